@@ -1,0 +1,64 @@
+package org.ritzwerk.medium;
+
+/**
+ * Standard air as adopted for published air wavelengths: dry air at 15 &deg;C and 101 325 Pa
+ * (with 450 ppm CO2), the formula given by D. C. Morton, ApJS 130, 403 (2000), eq. (8), from
+ * Birch &amp; Downs, Metrologia 31, 315 (1994):
+ *
+ * <pre>
+ *   n - 1 = 8.34254e-5 + 2.406147e-2 / (130 - s^2) + 1.5998e-4 / (38.9 - s^2)
+ * </pre>
+ *
+ * where {@code s = 1 / lambda_vac} in inverse micrometres. This is Ritzwerk's default meaning of
+ * "air". The coefficients are checked against specutils 1.9.1 ({@code method="Morton2000"}) in
+ * {@code AirVacuumTest}.
+ *
+ * <p>Validity: 200 nm to 2.5 um (vacuum). Below 200 nm wavelengths are given in vacuum by
+ * convention (common practice); the upper limit is the near-infrared range of the measurements
+ * behind the formula (from memory). Outside it, conversions refuse rather than extrapolate.
+ *
+ * <p>Immutable singleton; thread-safe.
+ */
+public enum StandardAir implements AirModel {
+    /** The one instance. */
+    INSTANCE;
+
+    /** The text {@link #spec()} returns and {@link AirModels#parse(String)} accepts. */
+    public static final String SPEC = "standard";
+
+    private static final double MIN_METRES = 200e-9;
+    private static final double MAX_METRES = 2.5e-6;
+
+    @Override
+    public String spec() {
+        return SPEC;
+    }
+
+    @Override
+    public String description() {
+        return "standard air (dry, 15 C, 101325 Pa; Morton 2000 eq. 8)";
+    }
+
+    @Override
+    public String citation() {
+        return "D. C. Morton, Astrophys. J. Suppl. Ser. 130, 403 (2000), eq. (8), after "
+                + "K. P. Birch and M. J. Downs, Metrologia 31, 315 (1994)";
+    }
+
+    @Override
+    public double refractiveIndex(double vacuumWavelengthMetres) {
+        double s = 1e-6 / vacuumWavelengthMetres;
+        double s2 = s * s;
+        return 1 + (8.34254e-5 + 2.406147e-2 / (130 - s2) + 1.5998e-4 / (38.9 - s2));
+    }
+
+    @Override
+    public double minVacuumWavelengthMetres() {
+        return MIN_METRES;
+    }
+
+    @Override
+    public double maxVacuumWavelengthMetres() {
+        return MAX_METRES;
+    }
+}

@@ -1,0 +1,10 @@
+/**
+ * Ritzwerk's computation: bulk kernels over primitive arrays (conversions now; level models,
+ * rates, matching, calibration and synthesis as they land). The engine reads no files and uses
+ * no global registry: it takes its parameters as values.
+ */
+module org.ritzwerk.engine {
+    requires transitive org.ritzwerk.api;
+
+    exports org.ritzwerk.engine.convert;
+}
