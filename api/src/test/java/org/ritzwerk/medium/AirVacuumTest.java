@@ -1,0 +1,129 @@
+package org.ritzwerk.medium;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.testing.Golden;
+
+/**
+ * Vacuum/air conversion against outside references.
+ *
+ * <p>Golden files {@code air-vacuum-specutils.csv} and {@code vacuum-air-specutils.csv}, made by
+ * {@code make_golden.py} with specutils 1.9.1 ({@code vac_to_air}, {@code air_to_vac} with
+ * {@code scheme="iteration"}), 2000 to 17000 Angstrom. Declared tolerance: 1e-14 relative.
+ */
+class AirVacuumTest {
+
+    private static final double TOLERANCE = 1e-14;
+    private static final double ANGSTROM = 1e-10;
+
+    @Test
+    void standardAirIsSpecutilsMorton2000() {
+        Medium air = Medium.air();
+        for (Map<String, String> row : Golden.rows("air-vacuum-specutils.csv")) {
+            double vacuum = value(row, "vacuum_angstrom") * ANGSTROM;
+            double expected = value(row, "air_Morton2000_angstrom") * ANGSTROM;
+            assertClose(expected, air.fromVacuum(vacuum), "vacuum to standard air at " + vacuum);
+        }
+        for (Map<String, String> row : Golden.rows("vacuum-air-specutils.csv")) {
+            double airWavelength = value(row, "air_angstrom") * ANGSTROM;
+            double expected = value(row, "vac_Morton2000_iteration_angstrom") * ANGSTROM;
+            assertClose(expected, air.toVacuum(airWavelength), "standard air to vacuum at " + airWavelength);
+        }
+    }
+
+    @Test
+    void ciddorAtItsStandardConditionsIsSpecutilsCiddor1996() {
+        for (int co2 : List.of(450, 400)) {
+            Medium air = Medium.air(new Ciddor1996(15, 101_325, 0, co2));
+            String column = "Ciddor1996_co2_" + co2 + "ppm";
+            for (Map<String, String> row : Golden.rows("air-vacuum-specutils.csv")) {
+                double vacuum = value(row, "vacuum_angstrom") * ANGSTROM;
+                if (vacuum < 3000 * ANGSTROM || vacuum > 16900 * ANGSTROM) {
+                    continue; // outside Ciddor's validity range, refused by Ritzwerk
+                }
+                assertClose(value(row, "air_" + column + "_angstrom") * ANGSTROM, air.fromVacuum(vacuum),
+                        "vacuum to Ciddor air (" + co2 + " ppm) at " + vacuum);
+            }
+            for (Map<String, String> row : Golden.rows("vacuum-air-specutils.csv")) {
+                double airWavelength = value(row, "air_angstrom") * ANGSTROM;
+                if (airWavelength < 3000 * ANGSTROM || airWavelength > 16800 * ANGSTROM) {
+                    continue;
+                }
+                assertClose(value(row, "vac_" + column + "_iteration_angstrom") * ANGSTROM,
+                        air.toVacuum(airWavelength), "Ciddor air (" + co2 + " ppm) to vacuum at " + airWavelength);
+            }
+        }
+    }
+
+    @Test
+    void publishedHydrogenAlphaPairUnderStandardAir() {
+        // H-alpha blend: vacuum 6564.614 A and air 6562.801 A as specutils' Morton2000 gives
+        // (golden rows); the commonly quoted air value is 6562.80 A (common practice).
+        double air = Medium.air().fromVacuum(6564.614 * ANGSTROM) / ANGSTROM;
+        assertEquals(6562.80, air, 0.005);
+    }
+
+    @Test
+    void ciddorDensityScalingFollowsTheGasLaw() {
+        // Dry air: n - 1 scales with density p / (Z T) (Ciddor 1996, eq. 5 and 12); at 20 C and
+        // 100 kPa against 15 C and 101.325 kPa the ratio of refractivities is p T0 / (p0 T) to
+        // within the compressibility change, < 1e-4 relative (common practice).
+        double lambda = 633e-9;
+        double reference = Ciddor1996.STANDARD_AIR.refractiveIndex(lambda) - 1;
+        double warm = new Ciddor1996(20, 100_000, 0, 450).refractiveIndex(lambda) - 1;
+        double idealRatio = (100_000.0 / 101_325) * (288.15 / 293.15);
+        assertEquals(idealRatio, warm / reference, 1e-4 * idealRatio);
+    }
+
+    @Test
+    void humidAirHasLowerIndexThanDryAir() {
+        // Water vapour displaces dry air of higher refractivity (Ciddor 1996, sec. 2; common practice).
+        double dry = new Ciddor1996(20, 101_325, 0, 450).refractiveIndex(633e-9);
+        double humid = new Ciddor1996(20, 101_325, 80, 450).refractiveIndex(633e-9);
+        assertTrue(humid < dry);
+        assertTrue(dry - humid > 2e-7 && dry - humid < 1e-6, "humidity effect " + (dry - humid));
+    }
+
+    @Test
+    void refusesWavelengthsOutsideTheModelRange() {
+        MediumException below = assertThrows(MediumException.class, () -> Medium.air().toVacuum(150e-9));
+        assertEquals(MediumException.OUTSIDE_VALIDITY, below.code());
+        assertTrue(below.getMessage().contains("150 nm (air)"), below.getMessage());
+        assertTrue(below.getMessage().contains("200 nm to 2500 nm"), below.getMessage());
+        assertTrue(below.getMessage().contains("state 'vacuum'"), below.getMessage());
+        MediumException above = assertThrows(MediumException.class, () -> Medium.air().fromVacuum(3e-6));
+        assertTrue(above.getMessage().contains("3000 nm (vacuum)"), above.getMessage());
+        MediumException ciddor = assertThrows(MediumException.class,
+                () -> Medium.air(Ciddor1996.STANDARD_AIR).fromVacuum(250e-9));
+        assertTrue(ciddor.getMessage().contains("300 nm to 1690 nm"), ciddor.getMessage());
+        // The boundary itself is inside.
+        Medium.air().fromVacuum(200e-9);
+        Medium.air().toVacuum(Medium.air().fromVacuum(200e-9));
+    }
+
+    @Test
+    void ciddorRefusesConditionsOutsideItsRange() {
+        MediumException e = assertThrows(MediumException.class, () -> new Ciddor1996(120, 101_325, 0, 450));
+        assertEquals(MediumException.BAD_CONDITION, e.code());
+        assertEquals("Ciddor 1996 air model: temperature 120.0 C is outside the model's range -40 to 100 C",
+                e.getMessage());
+        assertThrows(MediumException.class, () -> new Ciddor1996(20, 101_325, 101, 450));
+        assertThrows(MediumException.class, () -> new Ciddor1996(20, 5_000, 10, 450));
+        assertThrows(MediumException.class, () -> new Ciddor1996(20, 101_325, 10, Double.NaN));
+    }
+
+    private static double value(Map<String, String> row, String column) {
+        return Double.parseDouble(row.get(column));
+    }
+
+    private static void assertClose(double expected, double actual, String what) {
+        double error = Golden.relativeError(expected, actual);
+        assertTrue(error <= TOLERANCE, () -> what + ": expected " + expected + ", got " + actual + " (relative "
+                + error + ")");
+    }
+}
