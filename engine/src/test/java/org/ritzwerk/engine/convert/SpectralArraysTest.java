@@ -31,7 +31,7 @@ class SpectralArraysTest {
             Medium.air(new Ciddor1996(20, 101_325, 40, 450)));
 
     @Test
-    void bulkEqualsTypedConversionsTo2e16() {
+    void bulkEqualsTypedConversionsTo1e15() {
         qt().withFixedSeed(SEED)
                 .forAll(lists().of(doubles().between(310, 1680)).ofSizeBetween(1, 50),
                         arbitrary().pick(MEDIA), arbitrary().pick(SPECTRAL_UNITS), arbitrary().pick(MEDIA))
@@ -42,8 +42,23 @@ class SpectralArraysTest {
                     for (int i = 0; i < values.length; i++) {
                         SpectralQuantity typed = Wavelength.ofNanometres(values[i], fromMedium).to(to, toMedium);
                         double expected = typed.valueIn(to);
-                        assertEquals(expected, out[i], 4 * Math.ulp(expected), () -> typed + " in " + to);
+                        assertEquals(expected, out[i], 1e-15 * expected, () -> typed + " in " + to);
                     }
+                });
+    }
+
+    @Test
+    void everyUnitPairAgreesWithTheTypedPath() {
+        // From every spectral unit (vacuum) to every other, over seeded random photon energies.
+        qt().withFixedSeed(SEED).forAll(doubles().between(-3, 2), arbitrary().pick(SPECTRAL_UNITS),
+                arbitrary().pick(SPECTRAL_UNITS)).checkAssert((exponent, from, to) -> {
+                    SpectralQuantity source = org.ritzwerk.quantity.Energy.ofElectronVolts(Math.pow(10, exponent))
+                            .to(from, Medium.vacuum());
+                    double[] out = new double[1];
+                    SpectralArrays.convert(new double[] {source.valueIn(from)}, from, Medium.vacuum(), to,
+                            Medium.vacuum(), out);
+                    double expected = source.to(to, Medium.vacuum()).valueIn(to);
+                    assertEquals(expected, out[0], 1e-15 * expected, () -> source + " to " + to);
                 });
     }
 
