@@ -50,7 +50,8 @@ public final class DecimalText {
     /**
      * @param value  a finite double
      * @param digits significant digits, 1 to 17
-     * @return {@code value} rounded half-even to {@code digits} significant digits, as text
+     * @return {@code value} rounded half-even to {@code digits} significant digits, as text that
+     *         keeps trailing zeros ({@code 208.510} for six digits)
      */
     public static String significant(double value, int digits) {
         if (!Double.isFinite(value)) {
@@ -63,7 +64,20 @@ public final class DecimalText {
             return "0";
         }
         BigDecimal rounded = new BigDecimal(value).round(new MathContext(digits, RoundingMode.HALF_EVEN));
-        return render(rounded.stripTrailingZeros());
+        return render(rounded);
+    }
+
+    /**
+     * @param value  a finite double
+     * @param digits significant digits, 1 to 17
+     * @return {@code value} rounded to {@code digits} significant digits without trailing zeros,
+     *         for messages ({@code 150} rather than {@code 150.000000000})
+     */
+    public static String compact(double value, int digits) {
+        if (value == 0) {
+            return "0";
+        }
+        return render(new BigDecimal(significant(value, digits).replace("e", "E")).stripTrailingZeros());
     }
 
     /**

@@ -187,9 +187,9 @@ public sealed interface Medium permits Medium.Vacuum, Medium.Air {
                     : "";
             return new MediumException(MediumException.OUTSIDE_VALIDITY, String.format(Locale.ROOT,
                     "wavelength %s nm (%s) is outside the range of the air model %s: %s nm to %s nm in vacuum%s",
-                    DecimalText.significant(givenMetres * 1e9, 12), givenMedium, model.spec(),
-                    DecimalText.significant(model.minVacuumWavelengthMetres() * 1e9, 12),
-                    DecimalText.significant(model.maxVacuumWavelengthMetres() * 1e9, 12), hint));
+                    DecimalText.compact(givenMetres * 1e9, 12), givenMedium, model.spec(),
+                    DecimalText.compact(model.minVacuumWavelengthMetres() * 1e9, 12),
+                    DecimalText.compact(model.maxVacuumWavelengthMetres() * 1e9, 12), hint));
         }
     }
 }

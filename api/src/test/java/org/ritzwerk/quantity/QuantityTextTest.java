@@ -67,6 +67,9 @@ class QuantityTextTest {
     void roundsToSignificantDigitsWhenAsked() {
         Wavelength wavelength = Wavelength.ofNanometres(656.4602977309532, Medium.vacuum());
         assertEquals("656.46 nm vacuum", text.format(wavelength, Unit.NANOMETRE, 5));
+        assertEquals("656.4603 nm vacuum", text.format(wavelength, Unit.NANOMETRE, 7));
+        assertEquals("208.510 cm-1", text.format(Wavenumber.ofPerCentimetre(208.50969), Unit.PER_CENTIMETRE, 6));
+        assertEquals("1.20000e10 Hz", text.format(Frequency.ofHertz(1.2e10), Unit.HERTZ, 6));
         assertEquals("656.4602977309532 nm vacuum", text.format(wavelength, Unit.NANOMETRE));
         assertEquals("1.5e-19 J", text.format(Energy.ofJoules(1.5e-19), Unit.JOULE));
     }

@@ -12,7 +12,7 @@ import picocli.CommandLine.Command;
 @Command(name = "ritzwerk",
         mixinStandardHelpOptions = true,
         versionProvider = RitzwerkCommand.Version.class,
-        description = "Atomic energy levels and spectral lines: convert, identify, calibrate, synthesize.",
+        description = "Atomic energy levels and spectral lines for instrument, sensor and simulation work.",
         subcommands = {ConvertCommand.class, DemoCommand.class, CommandLine.HelpCommand.class})
 final class RitzwerkCommand implements Runnable {
 
