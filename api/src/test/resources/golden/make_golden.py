@@ -92,7 +92,7 @@ CODATA_KEYS = [
     'fine-structure constant', 'electron mass', 'proton mass', 'deuteron mass',
     'atomic mass constant', 'Rydberg constant times hc in eV',
     'Rydberg constant times c in Hz', 'electron volt-hertz relationship',
-    'inverse meter-electron volt relationship', 'kelvin-electron volt relationship',
+    'inverse meter-electron volt relationship', 'kelvin-electron volt relationship', 'electron mag. mom. anomaly', 'atomic unit of time',
 ]
 
 

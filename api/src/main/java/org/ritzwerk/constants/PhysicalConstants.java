@@ -57,6 +57,10 @@ public final class PhysicalConstants {
     public static final Constant ATOMIC_MASS_CONSTANT =
             new Constant("atomic mass constant", "m_u", 1.66053906660e-27, 0.00000000050e-27, "kg");
 
+    /** Electron magnetic-moment anomaly a_e (dimensionless). */
+    public static final Constant ELECTRON_MOMENT_ANOMALY =
+            new Constant("electron mag. mom. anomaly", "a_e", 1.15965218128e-3, 0.00000000018e-3, "");
+
     /** h in J s, as a plain double for kernels. */
     public static final double H = 6.62607015e-34;
     /** c in m s^-1, as a plain double for kernels. */
@@ -67,7 +71,8 @@ public final class PhysicalConstants {
     public static final double K = 1.380649e-23;
 
     private static final List<Constant> ALL = List.of(PLANCK, SPEED_OF_LIGHT, ELEMENTARY_CHARGE, BOLTZMANN,
-            AVOGADRO, RYDBERG, FINE_STRUCTURE, ELECTRON_MASS, PROTON_MASS, DEUTERON_MASS, ATOMIC_MASS_CONSTANT);
+            AVOGADRO, RYDBERG, FINE_STRUCTURE, ELECTRON_MASS, PROTON_MASS, DEUTERON_MASS, ATOMIC_MASS_CONSTANT,
+            ELECTRON_MOMENT_ANOMALY);
 
     private PhysicalConstants() {
     }
