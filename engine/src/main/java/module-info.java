@@ -7,4 +7,5 @@ module org.ritzwerk.engine {
     requires transitive org.ritzwerk.api;
 
     exports org.ritzwerk.engine.convert;
+    exports org.ritzwerk.engine.hydrogenic;
 }

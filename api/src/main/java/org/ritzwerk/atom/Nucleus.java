@@ -51,7 +51,9 @@ public record Nucleus(int z, int massNumber, double massKg, int twiceSpin, Optio
      * with the total electron binding energy
      * {@code B_e = 14.4381 Z^2.39 + 1.55468e-6 Z^5.35} eV (D. Lunney, J. M. Pearson, C. Thibault,
      * Rev. Mod. Phys. 75, 1021 (2003), eq. A4; from memory), good to a few eV, far below what
-     * level energies can feel through the reduced mass.
+     * level energies can feel through the reduced mass. For hydrogen (Z = 1), whose binding the
+     * fit overstates by 0.8 eV, the Rydberg energy {@code R_inf hc} is used instead (the 0.05 %
+     * reduced-mass difference is 7 meV).
      *
      * @param z                atomic number
      * @param atomicMassDalton neutral-atom mass in u (daltons); finite, positive
@@ -61,8 +63,10 @@ public record Nucleus(int z, int massNumber, double massKg, int twiceSpin, Optio
         if (!(atomicMassDalton > 0) || !Double.isFinite(atomicMassDalton)) {
             throw new IllegalArgumentException("atomic mass must be finite and positive u, got " + atomicMassDalton);
         }
-        double bindingEv = 14.4381 * Math.pow(z, 2.39) + 1.55468e-6 * Math.pow(z, 5.35);
-        double bindingKg = bindingEv * PhysicalConstants.E / (PhysicalConstants.C * PhysicalConstants.C);
+        double bindingJ = z == 1
+                ? PhysicalConstants.RYDBERG.value() * PhysicalConstants.H * PhysicalConstants.C
+                : (14.4381 * Math.pow(z, 2.39) + 1.55468e-6 * Math.pow(z, 5.35)) * PhysicalConstants.E;
+        double bindingKg = bindingJ / (PhysicalConstants.C * PhysicalConstants.C);
         return atomicMassDalton * PhysicalConstants.ATOMIC_MASS_CONSTANT.value()
                 - z * PhysicalConstants.ELECTRON_MASS.value() + bindingKg;
     }

@@ -1,0 +1,242 @@
+package org.ritzwerk.engine.hydrogenic;
+
+import java.util.Locale;
+import java.util.Objects;
+import org.ritzwerk.constants.PhysicalConstants;
+
+/**
+ * Electric-dipole lines of a one-electron ion: fine-structure components and n -> n' multiplets
+ * within a frequency window, the decays of a level, lifetimes and branching ratios.
+ *
+ * <p>Selection rules: delta l = +-1, delta j = 0, +-1 (the 6j symbol vanishes otherwise). For a
+ * component {@code n l j -> n' l' j'} (Edmonds, Angular Momentum in Quantum Mechanics, eq. 7.1.8;
+ * Bethe &amp; Salpeter sec. 59-63; Sobelman, Atomic Spectra and Radiative Transitions, ch. 9):
+ * <pre>
+ *   S = (2j+1)(2j'+1) {l j 1/2; j' l' 1}^2 max(l, l') (e a R)^2,   a = a_0 / (Z m_r/m_e)
+ *   A = 16 pi^3 nu^3 S / (3 h eps_0 c^3 g_u),   f = 8 pi^2 m_e nu S / (3 h e^2 g_l)
+ * </pre>
+ * with R the radial integral of {@link RadialIntegrals}, nu the vacuum frequency from the
+ * model's level energies, g = 2j + 1, a_0 = alpha / (4 pi R_inf) and eps_0 = e^2 / (2 alpha h c).
+ * The radial integrals are nonrelativistic, as is usual for one-electron rates: the relative
+ * error grows as (Z alpha)^2, about 5e-5 for hydrogen. A multiplet blends every component of
+ * n -> n': frequency weighted by line strength, S summed, {@code A = sum g_u A / (2 n^2)},
+ * {@code f = sum g_l f / (2 n'^2)}.
+ *
+ * <p>Magnetic-dipole and two-photon decays are not included, so a level with no E1 decay (1s,
+ * and 2s below the QED tier) has an infinite lifetime here; the real 2s lifetime is set by
+ * two-photon decay (about 0.12 s).
+ *
+ * <p>Immutable and thread-safe.
+ */
+public final class HydrogenLikeLines {
+
+    /** The largest principal quantum number accepted. */
+    public static final int MAX_N = 2000;
+
+    private final HydrogenLikeModel model;
+    /** e a, the dipole length unit of this ion, C m. */
+    private final double dipoleUnit;
+    private final double aFactor;
+    private final double fFactor;
+
+    private HydrogenLikeLines(HydrogenLikeModel model) {
+        this.model = Objects.requireNonNull(model, "model");
+        double alpha = model.fineStructureConstant();
+        double bohrRadius = alpha / (4 * Math.PI * PhysicalConstants.RYDBERG.value());
+        this.dipoleUnit = PhysicalConstants.E * bohrRadius / (model.nucleus().z() * model.reducedMassRatio());
+        double h = PhysicalConstants.H;
+        double c = PhysicalConstants.C;
+        double epsilon0 = PhysicalConstants.E * PhysicalConstants.E / (2 * alpha * h * c);
+        this.aFactor = 16 * Math.pow(Math.PI, 3) / (3 * h * epsilon0 * c * c * c);
+        this.fFactor = 8 * Math.PI * Math.PI * PhysicalConstants.ELECTRON_MASS.value()
+                / (3 * h * PhysicalConstants.E * PhysicalConstants.E);
+    }
+
+    /**
+     * @param model the level model
+     * @return the line generator for that ion and tier
+     */
+    public static HydrogenLikeLines of(HydrogenLikeModel model) {
+        return new HydrogenLikeLines(model);
+    }
+
+    /** @return the level model */
+    public HydrogenLikeModel model() {
+        return model;
+    }
+
+    /**
+     * @param nMax        highest upper principal quantum number, 1 to {@link #MAX_N}
+     * @param minHertz    lower end of the window (vacuum frequency, Hz), not negative
+     * @param maxHertz    upper end of the window (Hz), above {@code minHertz}
+     * @return every fine-structure component with upper n &lt;= nMax in the window, by frequency
+     */
+    public LineTable components(int nMax, double minHertz, double maxHertz) {
+        checkWindow(nMax, minHertz, maxHertz);
+        LineTable.Builder lines = new LineTable.Builder();
+        for (int nU = 1; nU <= nMax; nU++) {
+            for (int nL = 1; nL <= nU; nL++) {
+                if (outside(nU, nL, minHertz, maxHertz)) {
+                    continue;
+                }
+                addComponents(nU, nL, minHertz, maxHertz, lines);
+            }
+        }
+        return LineTable.sorted(lines);
+    }
+
+    /**
+     * @param nMax     highest upper principal quantum number, 1 to {@link #MAX_N}
+     * @param minHertz lower end of the window (Hz)
+     * @param maxHertz upper end of the window (Hz)
+     * @return every n -> n' multiplet (n' &lt; n &lt;= nMax) whose blended frequency is in the window
+     */
+    public LineTable multiplets(int nMax, double minHertz, double maxHertz) {
+        checkWindow(nMax, minHertz, maxHertz);
+        LineTable.Builder lines = new LineTable.Builder();
+        for (int nU = 2; nU <= nMax; nU++) {
+            for (int nL = 1; nL < nU; nL++) {
+                if (outside(nU, nL, minHertz, maxHertz)) {
+                    continue;
+                }
+                LineTable.Builder parts = new LineTable.Builder();
+                addComponents(nU, nL, 0, Double.POSITIVE_INFINITY, parts);
+                double strength = 0;
+                double weightedFrequency = 0;
+                double gA = 0;
+                double gF = 0;
+                for (int i = 0; i < parts.size; i++) {
+                    strength += parts.strength[i];
+                    weightedFrequency += parts.strength[i] * parts.frequency[i];
+                    gA += (parts.upper[3 * i + 2] + 1) * parts.einsteinA[i];
+                    gF += (parts.lower[3 * i + 2] + 1) * parts.oscillatorStrength[i];
+                }
+                double hertz = weightedFrequency / strength;
+                if (hertz >= minHertz && hertz <= maxHertz) {
+                    lines.add(nU, -1, -1, nL, -1, -1, hertz, strength, gA / (2.0 * nU * nU), gF / (2.0 * nL * nL));
+                }
+            }
+        }
+        return LineTable.sorted(lines);
+    }
+
+    /**
+     * @param n    principal quantum number
+     * @param l    orbital quantum number
+     * @param twoJ twice j
+     * @return every E1 decay of the level n l j to a lower level, by frequency
+     */
+    public LineTable decays(int n, int l, int twoJ) {
+        HydrogenLikeModel.checkLevel(n, l, twoJ);
+        if (n > MAX_N) {
+            throw new IllegalArgumentException("n must be at most " + MAX_N + ", got " + n);
+        }
+        double energy = model.energy(n, l, twoJ);
+        LineTable.Builder lines = new LineTable.Builder();
+        for (int nL = 1; nL <= n; nL++) {
+            for (int lL = l - 1; lL <= l + 1; lL += 2) {
+                if (lL < 0 || lL >= nL) {
+                    continue;
+                }
+                double radial = RadialIntegrals.dipole(n, l, nL, lL);
+                for (int twoJL = 2 * lL - 1; twoJL <= 2 * lL + 1; twoJL += 2) {
+                    if (twoJL < 1) {
+                        continue;
+                    }
+                    double lowerEnergy = model.energy(nL, lL, twoJL);
+                    if (lowerEnergy < energy) {
+                        add(lines, n, l, twoJ, nL, lL, twoJL, (energy - lowerEnergy) / PhysicalConstants.H, radial);
+                    }
+                }
+            }
+        }
+        return LineTable.sorted(lines);
+    }
+
+    /**
+     * @param n    principal quantum number
+     * @param l    orbital quantum number
+     * @param twoJ twice j
+     * @return the radiative lifetime 1 / sum(A) in s from E1 decays; positive infinity when the
+     *         level has none (see the class comment)
+     */
+    public double lifetime(int n, int l, int twoJ) {
+        LineTable decays = decays(n, l, twoJ);
+        double total = 0;
+        for (int i = 0; i < decays.size(); i++) {
+            total += decays.einsteinA(i);
+        }
+        return 1 / total;
+    }
+
+    private void addComponents(int nU, int nL, double minHertz, double maxHertz, LineTable.Builder lines) {
+        for (int lU = 0; lU < nU; lU++) {
+            for (int lL = lU - 1; lL <= lU + 1; lL += 2) {
+                if (lL < 0 || lL >= nL || nU == nL && lL > lU) {
+                    continue; // within one shell, each pair of l once
+                }
+                double radial = Double.NaN;
+                for (int twoJU = 2 * lU - 1; twoJU <= 2 * lU + 1; twoJU += 2) {
+                    for (int twoJL = 2 * lL - 1; twoJL <= 2 * lL + 1; twoJL += 2) {
+                        if (twoJU < 1 || twoJL < 1 || Math.abs(twoJU - twoJL) > 2) {
+                            continue;
+                        }
+                        double delta = model.energy(nU, lU, twoJU) - model.energy(nL, lL, twoJL);
+                        double hertz = Math.abs(delta) / PhysicalConstants.H;
+                        if (hertz == 0 || hertz < minHertz || hertz > maxHertz) {
+                            continue;
+                        }
+                        if (Double.isNaN(radial)) {
+                            radial = RadialIntegrals.dipole(nU, lU, nL, lL);
+                        }
+                        if (delta > 0) {
+                            add(lines, nU, lU, twoJU, nL, lL, twoJL, hertz, radial);
+                        } else {
+                            add(lines, nL, lL, twoJL, nU, lU, twoJU, hertz, radial);
+                        }
+                    }
+                }
+            }
+        }
+    }
+
+    private void add(LineTable.Builder lines, int nU, int lU, int twoJU, int nL, int lL, int twoJL, double hertz,
+            double radial) {
+        double dipole = radial * dipoleUnit;
+        double s = AngularFactors.fineStructureShare(lU, twoJU, lL, twoJL) * Math.max(lU, lL) * dipole * dipole;
+        if (s == 0) {
+            return;
+        }
+        double a = aFactor * hertz * hertz * hertz * s / (twoJU + 1);
+        double f = fFactor * hertz * s / (twoJL + 1);
+        lines.add(nU, lU, twoJU, nL, lL, twoJL, hertz, s, a, f);
+    }
+
+    /** Whether every line n -> n' surely lies outside the window (bounds from the shells' extreme levels). */
+    private boolean outside(int nU, int nL, double minHertz, double maxHertz) {
+        double[] upper = shellBounds(nU);
+        double[] lower = shellBounds(nL);
+        double low = (upper[0] - lower[1]) / PhysicalConstants.H;
+        double high = (upper[1] - lower[0]) / PhysicalConstants.H;
+        double margin = 0.01 * Math.abs(high - low) + 1e-9 * Math.abs(high);
+        return high + margin < minHertz || Math.max(low, 0) - margin > maxHertz || nU == nL && high <= 0;
+    }
+
+    /** {lowest, highest} binding energy in shell n among s1/2, p1/2 and the top j. */
+    private double[] shellBounds(int n) {
+        double a = model.energy(n, 0, 1);
+        double b = n > 1 ? model.energy(n, 1, 1) : a;
+        double c = model.energy(n, n - 1, 2 * n - 1);
+        return new double[] {Math.min(a, Math.min(b, c)), Math.max(a, Math.max(b, c))};
+    }
+
+    private static void checkWindow(int nMax, double minHertz, double maxHertz) {
+        if (nMax < 1 || nMax > MAX_N) {
+            throw new IllegalArgumentException("n-max must be 1 to " + MAX_N + ", got " + nMax);
+        }
+        if (!(minHertz >= 0) || !(maxHertz > minHertz)) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT,
+                    "the window must have 0 <= from < to, got %s Hz to %s Hz", minHertz, maxHertz));
+        }
+    }
+}

@@ -1,0 +1,21 @@
+package org.ritzwerk.refdata;
+
+import org.ritzwerk.RitzwerkException;
+
+/** A request the reference data cannot answer, or a built-in data file that is broken. */
+public final class ReferenceDataException extends RitzwerkException {
+    private static final long serialVersionUID = 1L;
+
+    /** Code: the isotope asked for is not in the data set. */
+    public static final String UNKNOWN_ISOTOPE = "refdata.unknown-isotope";
+    /** Code: a built-in data file does not read (a packaging bug). */
+    public static final String BAD_BUILT_IN = "refdata.bad-built-in";
+
+    /**
+     * @param code    one of the codes above
+     * @param message what was asked and what the data set has instead
+     */
+    public ReferenceDataException(String code, String message) {
+        super(code, message);
+    }
+}
