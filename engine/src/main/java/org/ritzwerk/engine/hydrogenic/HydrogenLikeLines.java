@@ -48,8 +48,10 @@ public final class HydrogenLikeLines {
         double c = PhysicalConstants.C;
         double epsilon0 = PhysicalConstants.E * PhysicalConstants.E / (2 * alpha * h * c);
         this.aFactor = 16 * Math.pow(Math.PI, 3) / (3 * h * epsilon0 * c * c * c);
-        this.fFactor = 8 * Math.PI * Math.PI * PhysicalConstants.ELECTRON_MASS.value()
-                / (3 * h * PhysicalConstants.E * PhysicalConstants.E);
+        // f = 8 pi^2 m_e nu S / (3 h e^2 g_l), written with m_e = 2 h R_inf / (alpha^2 c) so that
+        // it rests on the same R_inf and alpha as the energies: f = nu S / (3 R_inf c g_l (e a_0)^2).
+        double atomicDipole = PhysicalConstants.E * bohrRadius;
+        this.fFactor = 1 / (3 * PhysicalConstants.RYDBERG.value() * c * atomicDipole * atomicDipole);
     }
 
     /**

@@ -51,13 +51,13 @@ public final class RadialIntegrals {
     }
 
     static void checkState(int n, int l, String which) {
+        String of = which.isEmpty() ? "" : " of the " + which + " state";
         if (n < 1) {
-            throw new IllegalArgumentException("principal quantum number n of the " + which
-                    + " state must be >= 1, got " + n);
+            throw new IllegalArgumentException("principal quantum number n" + of + " must be >= 1, got " + n);
         }
         if (l < 0 || l >= n) {
-            throw new IllegalArgumentException("orbital quantum number l of the " + which + " state must be 0 to n - 1 = "
-                    + (n - 1) + ", got " + l);
+            throw new IllegalArgumentException("orbital quantum number l" + of + " must be 0 to n - 1 = " + (n - 1)
+                    + ", got " + l);
         }
     }
 
