@@ -1,0 +1,81 @@
+package org.ritzwerk.cli;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hydrogenic.LevelTable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code ritzwerk levels}: energy levels of one-electron ions. */
+@Command(name = "levels",
+        mixinStandardHelpOptions = true,
+        description = {
+            "Energy levels of one-electron ions (H I, D I, He II, C VI, ... U XCII), in cm-1 above the",
+            "ground state, under a chosen model: bohr (reduced mass), dirac (fine structure and",
+            "recoil), qed (plus the leading Lamb shift and nuclear size), hyperfine (plus s-level",
+            "hyperfine structure). Nuclear data from the built-in set (AME2020 masses, ...)."
+        },
+        footer = {"", "Examples:",
+            "  ritzwerk levels --species \"H I\" --n-max 3",
+            "  ritzwerk levels --species D --model hyperfine --n-max 2 --format json"})
+final class LevelsCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--species", required = true, paramLabel = "SPECIES",
+            description = "One-electron ions, comma-separated or repeated: \"H I\", D, \"He II\", C5+.")
+    List<String> species = new ArrayList<>();
+
+    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "qed",
+            description = "bohr, dirac, qed or hyperfine (default: ${DEFAULT-VALUE}).")
+    String model;
+
+    @Option(names = "--n-max", paramLabel = "N", defaultValue = "4",
+            description = "Highest principal quantum number (default: ${DEFAULT-VALUE}; at most 2000).")
+    int nMax;
+
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
+            description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
+    Table.Format format;
+
+    @Override
+    public Integer call() {
+        if (nMax < 1 || nMax > 2000) {
+            throw new IllegalArgumentException("--n-max must be 1 to 2000, got " + nMax);
+        }
+        Table table = new Table(List.of(
+                Table.Column.text("species", "species"),
+                Table.Column.text("label", "level"),
+                Table.Column.text("n", "n"),
+                Table.Column.text("l", "l"),
+                Table.Column.text("j", "j"),
+                Table.Column.text("hyperfine_f", "F"),
+                Table.Column.text("g", "g"),
+                Table.Column.number("energy_per_cm", "energy cm-1", "%.7f"),
+                Table.Column.text("model", "model")));
+        double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
+        for (Ions.Ion ion : Ions.of(species, model)) {
+            LevelTable levels = ion.model().levels(nMax);
+            double ground = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < levels.size(); i++) {
+                ground = Math.min(ground, levels.energy(i));
+            }
+            for (int i = 0; i < levels.size(); i++) {
+                table.add(ion.species().notation(), levels.label(i), levels.n(i), levels.l(i), half(levels.twoJ(i)),
+                        levels.twoF(i) < 0 ? null : half(levels.twoF(i)), levels.statisticalWeight(i),
+                        (levels.energy(i) - ground) / hcPerCm, ion.model().tier().id());
+            }
+        }
+        table.write(spec.commandLine().getOut(), format);
+        return 0;
+    }
+
+    static String half(int twice) {
+        return (twice & 1) == 0 ? Integer.toString(twice / 2) : twice + "/2";
+    }
+}

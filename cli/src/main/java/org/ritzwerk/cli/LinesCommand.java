@@ -1,0 +1,155 @@
+package org.ritzwerk.cli;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.medium.MediumException;
+import org.ritzwerk.quantity.QuantityText;
+import org.ritzwerk.quantity.SpectralQuantity;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code ritzwerk lines}: electric-dipole lines of one-electron ions in a window, with rates. */
+@Command(name = "lines",
+        mixinStandardHelpOptions = true,
+        description = {
+            "Electric-dipole lines of one-electron ions between two spectral positions, with",
+            "Einstein A, oscillator strength and series name: fine-structure components, or",
+            "n -> n' multiplets with --multiplets. --from and --to take any unit; a wavelength",
+            "without a medium is in vacuum (write \"400 nm air\" for air)."
+        },
+        footer = {"", "Examples:",
+            "  ritzwerk lines --species \"H I\" --from \"400 nm air\" --to \"700 nm air\" --medium air",
+            "  ritzwerk lines --species \"H I,He II\" --from 4.9GHz --to 5.1GHz --n-max 200 --multiplets",
+            "  ritzwerk lines --species \"C VI\" --from \"1 nm\" --to \"5 nm\" --format json"})
+final class LinesCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--species", required = true, paramLabel = "SPECIES",
+            description = "One-electron ions, comma-separated or repeated: \"H I\", D, \"He II\", C5+.")
+    List<String> species = new ArrayList<>();
+
+    @Option(names = "--from", required = true, paramLabel = "QUANTITY", description = "One end of the window.")
+    String from;
+
+    @Option(names = "--to", required = true, paramLabel = "QUANTITY", description = "The other end of the window.")
+    String to;
+
+    @Option(names = "--medium", paramLabel = "MEDIUM", defaultValue = "vacuum",
+            description = "Medium of the wavelength column in the table: vacuum or air (default: ${DEFAULT-VALUE}).")
+    String medium;
+
+    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "qed",
+            description = "bohr, dirac, qed or hyperfine (default: ${DEFAULT-VALUE}).")
+    String model;
+
+    @Option(names = "--n-max", paramLabel = "N", defaultValue = "30",
+            description = "Highest upper principal quantum number (default: ${DEFAULT-VALUE}; at most 2000).")
+    int nMax;
+
+    @Option(names = "--min-a", paramLabel = "RATE", defaultValue = "0",
+            description = "Leave out lines whose Einstein A (s^-1) is below RATE (default: ${DEFAULT-VALUE}).")
+    double minA;
+
+    @Option(names = "--multiplets", description = "Blend each n -> n' transition into one line.")
+    boolean multiplets;
+
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
+            description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
+    Table.Format format;
+
+    /** One line of one species, for sorting across species. */
+    private record Line(String species, String model, LineTable table, int index) {
+        double frequency() {
+            return table.frequency(index);
+        }
+    }
+
+    @Override
+    public Integer call() {
+        if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
+            throw new IllegalArgumentException("--n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
+        }
+        if (!(minA >= 0) || Double.isInfinite(minA)) {
+            throw new IllegalArgumentException("--min-a must be a finite rate >= 0 s^-1, got " + minA);
+        }
+        boolean air;
+        if (medium.equals("air")) {
+            air = true;
+        } else if (medium.equals("vacuum")) {
+            air = false;
+        } else {
+            throw new IllegalArgumentException("--medium must be vacuum or air, got '" + medium + "'");
+        }
+        double a = frequencyOf("--from", from);
+        double b = frequencyOf("--to", to);
+        double low = Math.min(a, b);
+        double high = Math.max(a, b);
+        if (low == high) {
+            throw new IllegalArgumentException("--from and --to are the same position; give a window");
+        }
+        List<Line> found = new ArrayList<>();
+        for (Ions.Ion ion : Ions.of(species, model)) {
+            HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
+            LineTable table = multiplets ? generator.multiplets(nMax, low, high) : generator.components(nMax, low, high);
+            for (int i = 0; i < table.size(); i++) {
+                if (table.einsteinA(i) >= minA) {
+                    found.add(new Line(ion.species().notation(), ion.model().tier().id(), table, i));
+                }
+            }
+        }
+        found.sort(Comparator.comparingDouble(Line::frequency).reversed());
+        Table output = new Table(List.of(
+                Table.Column.text("species", "species"),
+                Table.Column.text("upper", "upper"),
+                Table.Column.text("lower", "lower"),
+                Table.Column.text("series", "series"),
+                new Table.Column(air ? "air_wavelength_nm" : "vacuum_wavelength_nm",
+                        air ? "air nm" : "vacuum nm", value -> String.format(java.util.Locale.ROOT, "%.6f", value)),
+                new Table.Column(air ? "vacuum_wavelength_nm" : "air_wavelength_nm",
+                        air ? "vacuum nm" : "air nm", value -> String.format(java.util.Locale.ROOT, "%.6f", value)),
+                Table.Column.number("wavenumber_per_cm", "cm-1", "%.5f"),
+                Table.Column.number("frequency_hz", "Hz", "%.9e"),
+                Table.Column.number("einstein_a_per_s", "A s-1", "%.4e"),
+                Table.Column.number("oscillator_strength", "f", "%.4e"),
+                Table.Column.number("line_strength_au", "S (e a0)^2", "%.4e"),
+                Table.Column.text("model", "model")));
+        double atomicDipole = PhysicalConstants.E * PhysicalConstants.FINE_STRUCTURE.value()
+                / (4 * Math.PI * PhysicalConstants.RYDBERG.value());
+        for (Line line : found) {
+            LineTable t = line.table();
+            int i = line.index();
+            double vacuumMetres = PhysicalConstants.C / t.frequency(i);
+            double airMetres = airWavelength(vacuumMetres);
+            output.add(line.species(), t.upperLabel(i), t.lowerLabel(i), t.seriesName(i),
+                    (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
+                    t.frequency(i) / PhysicalConstants.C / 100, t.frequency(i), t.einsteinA(i),
+                    t.oscillatorStrength(i), t.lineStrength(i) / (atomicDipole * atomicDipole), line.model());
+        }
+        output.write(spec.commandLine().getOut(), format);
+        return 0;
+    }
+
+    private static double frequencyOf(String option, String text) {
+        SpectralQuantity quantity = QuantityText.standard().parseSpectral(text);
+        return quantity.toFrequency().inHertz();
+    }
+
+    /** The standard-air wavelength in metres, NaN (printed as null) outside the model's range. */
+    private static double airWavelength(double vacuumMetres) {
+        try {
+            return Medium.air().fromVacuum(vacuumMetres);
+        } catch (MediumException e) {
+            return Double.NaN;
+        }
+    }
+}

@@ -1,0 +1,106 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.refdata.NuclearData;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/** {@code levels} and {@code lines} end to end: JSON output parsed and checked against the library. */
+class LevelsAndLinesCommandTest {
+
+    private static final JsonMapper JSON = JsonMapper.builder().build();
+
+    private static List<JsonNode> json(CliTest.Run run) {
+        assertEquals(0, run.code(), run.err());
+        List<JsonNode> nodes = new ArrayList<>();
+        for (String line : run.out().strip().split("\\R")) {
+            nodes.add(JSON.readTree(line));
+        }
+        return nodes;
+    }
+
+    @Test
+    void levelsOfHydrogenInJson() {
+        List<JsonNode> levels = json(CliTest.run("levels", "--species", "H I", "--n-max", "2", "--format", "json"));
+        assertEquals(4, levels.size());
+        JsonNode twoS = levels.get(1);
+        assertEquals("H I", twoS.get("species").asString());
+        assertEquals("2s 2S1/2", twoS.get("label").asString());
+        assertEquals(2, twoS.get("n").asInt());
+        assertEquals(0, twoS.get("l").asInt());
+        assertEquals("1/2", twoS.get("j").asString());
+        assertEquals("qed", twoS.get("model").asString());
+        assertTrue(twoS.get("hyperfine_f").isNull());
+        // Kramida 2010 (via NIST ASD): 2s 2S1/2 at 82258.9543992821 cm-1.
+        assertEquals(82258.9543992821, twoS.get("energy_per_cm").asDouble(), 1e-4);
+        assertEquals(0.0, levels.get(0).get("energy_per_cm").asDouble(), 0.0);
+    }
+
+    @Test
+    void linesInAnAirWindowMatchTheLibrary() {
+        List<JsonNode> lines = json(CliTest.run("lines", "--species", "H I", "--from", "650 nm air", "--to",
+                "660 nm air", "--multiplets", "--format", "json"));
+        assertEquals(1, lines.size());
+        JsonNode alpha = lines.get(0);
+        assertEquals("Balmer alpha", alpha.get("series").asString());
+        assertEquals("n=3", alpha.get("upper").asString());
+        assertEquals("n=2", alpha.get("lower").asString());
+        LineTable expected = HydrogenLikeLines.of(HydrogenLikeModel.of(
+                NuclearData.builtIn().nucleus(Species.parse("H I")), Tier.QED)).multiplets(3, 4e14, 5e14);
+        assertEquals(expected.frequency(0), alpha.get("frequency_hz").asDouble(), 0.0);
+        assertEquals(expected.einsteinA(0), alpha.get("einstein_a_per_s").asDouble(), 0.0);
+        // Commonly quoted H-alpha: 656.28 nm in air, 656.46 nm in vacuum (common practice).
+        assertEquals(656.28, alpha.get("air_wavelength_nm").asDouble(), 0.005);
+        assertEquals(656.46, alpha.get("vacuum_wavelength_nm").asDouble(), 0.005);
+        assertEquals(15233.2, alpha.get("wavenumber_per_cm").asDouble(), 0.05);
+    }
+
+    @Test
+    void airIsNullOutsideTheStandardAirRange() {
+        List<JsonNode> lyman = json(CliTest.run("lines", "--species", "H I", "--from", "120 nm", "--to", "125 nm",
+                "--format", "json"));
+        assertEquals(2, lyman.size());
+        assertTrue(lyman.get(0).get("air_wavelength_nm").isNull());
+        assertEquals(121.567, lyman.get(0).get("vacuum_wavelength_nm").asDouble(), 0.001);
+    }
+
+    @Test
+    void csvAndTableCarryTheSameLines() {
+        CliTest.Run csv = CliTest.run("lines", "--species", "H I,He II", "--from", "400 nm air", "--to", "700 nm air",
+                "--multiplets", "--n-max", "12", "--min-a", "1e5", "--format", "csv");
+        assertEquals(0, csv.code(), csv.err());
+        String[] rows = csv.out().strip().split("\\R");
+        assertTrue(rows[0].startsWith("species,upper,lower,series,vacuum_wavelength_nm,air_wavelength_nm"), rows[0]);
+        CliTest.Run text = CliTest.run("lines", "--species", "H I,He II", "--from", "400 nm air", "--to", "700 nm air",
+                "--multiplets", "--n-max", "12", "--min-a", "1e5");
+        assertEquals(rows.length, text.out().strip().split("\\R").length);
+        assertTrue(text.out().contains("He II") && text.out().contains("Balmer alpha"), text.out());
+    }
+
+    @Test
+    void refusesWhatItCannotDo() {
+        CliTest.Run helium = CliTest.run("lines", "--species", "He I", "--from", "400 nm", "--to", "700 nm");
+        assertEquals(2, helium.code());
+        assertEquals("ritzwerk lines: He I has 2 electrons; levels and lines cover one-electron ions (H I, D I, He II,"
+                + " C VI, ...) so far", helium.err().strip());
+        CliTest.Run isotope = CliTest.run("levels", "--species", "Fe-60 XXVI");
+        assertEquals(2, isotope.code());
+        assertTrue(isotope.err().contains("no nuclear data for Fe-60"), isotope.err());
+        CliTest.Run model = CliTest.run("levels", "--species", "H", "--model", "exact");
+        assertEquals(2, model.code());
+        assertTrue(model.err().contains("unknown level model 'exact'; known: bohr, dirac, qed, hyperfine"), model.err());
+        CliTest.Run window = CliTest.run("lines", "--species", "H", "--from", "400 nm", "--to", "400 nm");
+        assertEquals(2, window.code());
+        assertTrue(window.err().contains("give a window"), window.err());
+    }
+}
