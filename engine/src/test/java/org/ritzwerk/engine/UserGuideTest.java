@@ -2,10 +2,18 @@ package org.ritzwerk.engine;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
+import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.quantity.Wavelength;
 
 /** The engine examples of the README, compiled and run. */
 class UserGuideTest {
@@ -19,5 +27,25 @@ class UserGuideTest {
                 Unit.PER_CENTIMETRE, null, wavenumbers);
 
         assertEquals(17298.8, wavenumbers[1], 0.05);
+    }
+
+    @Test
+    void linesOfAOneElectronIonInAWindow() {
+        // The nucleus comes from refdata (NuclearData.builtIn().nucleus(Species.parse("He II")));
+        // here it is written out so the engine example stands alone: He-4, spin 0, r = 1.68 fm.
+        Nucleus helium4 = new Nucleus(2, 4, Nucleus.nuclearMassKg(2, 4.00260325413), 0, OptionalDouble.empty(),
+                OptionalDouble.of(1.6755e-15), "example");
+        HydrogenLikeLines lines = HydrogenLikeLines.of(HydrogenLikeModel.of(helium4, Tier.QED));
+
+        double from = Wavelength.ofNanometres(460, Medium.air()).toFrequency().inHertz();
+        double to = Wavelength.ofNanometres(470, Medium.air()).toFrequency().inHertz();
+        LineTable table = lines.multiplets(10, to, from);
+
+        assertEquals(1, table.size());
+        assertEquals("Paschen alpha", table.seriesName(0));            // He II 4 -> 3 at 468.6 nm
+        double airNm = Medium.air().fromVacuum(PhysicalConstants.C / table.frequency(0)) * 1e9;
+        assertEquals(468.57, airNm, 0.01);
+        double einsteinA = table.einsteinA(0);                         // s^-1, Z^4 times hydrogen's
+        assertEquals(16 * 8.9860e6, einsteinA, 0.01 * 16 * 8.9860e6);
     }
 }

@@ -1,0 +1,33 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.quantity.Frequency;
+import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.NuclearData;
+
+/** The README's library example that spans engine and refdata, compiled and run. */
+class UserGuideTest {
+
+    @Test
+    void linesOfAOneElectronIonWithRates() {
+        Nucleus helium4 = NuclearData.builtIn().nucleus(Species.parse("He II"));
+        HydrogenLikeLines lines = HydrogenLikeLines.of(HydrogenLikeModel.of(helium4, Tier.QED));
+        LineTable table = lines.multiplets(10, Frequency.of(630, Unit.TERAHERTZ).inHertz(),
+                Frequency.of(660, Unit.TERAHERTZ).inHertz());
+        double tau2p = HydrogenLikeLines.of(HydrogenLikeModel.of(
+                NuclearData.builtIn().nucleus(Species.parse("H")), Tier.QED)).lifetime(2, 1, 1);
+
+        assertEquals(1, table.size());
+        assertEquals("Paschen alpha", table.seriesName(0));
+        assertEquals(639.8, table.frequency(0) / 1e12, 0.1);
+        assertEquals(1.596e-9, tau2p, 1e-12);
+    }
+}
