@@ -20,8 +20,8 @@ class UserGuideTest {
     void linesOfAOneElectronIonWithRates() {
         Nucleus helium4 = NuclearData.builtIn().nucleus(Species.parse("He II"));
         HydrogenLikeLines lines = HydrogenLikeLines.of(HydrogenLikeModel.of(helium4, Tier.QED));
-        LineTable table = lines.multiplets(10, Frequency.of(630, Unit.TERAHERTZ).inHertz(),
-                Frequency.of(660, Unit.TERAHERTZ).inHertz());
+        LineTable table = lines.multiplets(10, Frequency.of(635, Unit.TERAHERTZ).inHertz(),
+                Frequency.of(645, Unit.TERAHERTZ).inHertz());
         double tau2p = HydrogenLikeLines.of(HydrogenLikeModel.of(
                 NuclearData.builtIn().nucleus(Species.parse("H")), Tier.QED)).lifetime(2, 1, 1);
 
