@@ -90,17 +90,15 @@ final class LinesCommand implements Callable<Integer> {
         } else {
             throw new IllegalArgumentException("--medium must be vacuum or air, got '" + medium + "'");
         }
-        double a = frequencyOf("--from", from);
-        double b = frequencyOf("--to", to);
-        double low = Math.min(a, b);
-        double high = Math.max(a, b);
-        if (low == high) {
+        SpectralQuantity one = QuantityText.standard().parseSpectral(from);
+        SpectralQuantity two = QuantityText.standard().parseSpectral(to);
+        if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {
             throw new IllegalArgumentException("--from and --to are the same position; give a window");
         }
         List<Line> found = new ArrayList<>();
         for (Ions.Ion ion : Ions.of(species, model)) {
             HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
-            LineTable table = multiplets ? generator.multiplets(nMax, low, high) : generator.components(nMax, low, high);
+            LineTable table = multiplets ? generator.multiplets(nMax, one, two) : generator.components(nMax, one, two);
             for (int i = 0; i < table.size(); i++) {
                 if (table.einsteinA(i) >= minA) {
                     found.add(new Line(ion.species().notation(), ion.model().tier().id(), table, i));
@@ -137,11 +135,6 @@ final class LinesCommand implements Callable<Integer> {
         }
         output.write(spec.commandLine().getOut(), format);
         return 0;
-    }
-
-    private static double frequencyOf(String option, String text) {
-        SpectralQuantity quantity = QuantityText.standard().parseSpectral(text);
-        return quantity.toFrequency().inHertz();
     }
 
     /** The standard-air wavelength in metres, NaN (printed as null) outside the model's range. */

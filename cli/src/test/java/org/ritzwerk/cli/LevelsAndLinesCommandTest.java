@@ -47,6 +47,17 @@ class LevelsAndLinesCommandTest {
     }
 
     @Test
+    void lifetimesOnRequest() {
+        List<JsonNode> levels = json(CliTest.run("levels", "--species", "H", "--n-max", "2", "--lifetimes",
+                "--format", "json"));
+        assertTrue(levels.get(0).get("lifetime_s").isNull(), "1s has no decay");
+        // 2p: 1/A with A = 6.2649e8 s^-1 (Wiese & Fuhr 2009): 1.596 ns.
+        assertEquals(1.596e-9, levels.get(2).get("lifetime_s").asDouble(), 1e-12);
+        assertTrue(json(CliTest.run("levels", "--species", "H", "--n-max", "1", "--format", "json")).get(0)
+                .get("lifetime_s") == null, "no lifetime field unless asked");
+    }
+
+    @Test
     void linesInAnAirWindowMatchTheLibrary() {
         List<JsonNode> lines = json(CliTest.run("lines", "--species", "H I", "--from", "650 nm air", "--to",
                 "660 nm air", "--multiplets", "--format", "json"));

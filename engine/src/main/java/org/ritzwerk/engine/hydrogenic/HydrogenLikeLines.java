@@ -3,6 +3,7 @@ package org.ritzwerk.engine.hydrogenic;
 import java.util.Locale;
 import java.util.Objects;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.quantity.SpectralQuantity;
 
 /**
  * Electric-dipole lines of a one-electron ion: fine-structure components and n -> n' multiplets
@@ -88,6 +89,30 @@ public final class HydrogenLikeLines {
     }
 
     /**
+     * @param nMax highest upper principal quantum number, 1 to {@link #MAX_N}
+     * @param one  one end of the window, in any unit and medium (e.g. an air wavelength)
+     * @param two  the other end
+     * @return every fine-structure component in the window, by frequency
+     */
+    public LineTable components(int nMax, SpectralQuantity one, SpectralQuantity two) {
+        double a = one.toFrequency().inHertz();
+        double b = two.toFrequency().inHertz();
+        return components(nMax, Math.min(a, b), Math.max(a, b));
+    }
+
+    /**
+     * @param nMax highest upper principal quantum number, 1 to {@link #MAX_N}
+     * @param one  one end of the window, in any unit and medium
+     * @param two  the other end
+     * @return every n -> n' multiplet whose blended frequency is in the window, by frequency
+     */
+    public LineTable multiplets(int nMax, SpectralQuantity one, SpectralQuantity two) {
+        double a = one.toFrequency().inHertz();
+        double b = two.toFrequency().inHertz();
+        return multiplets(nMax, Math.min(a, b), Math.max(a, b));
+    }
+
+    /**
      * @param nMax     highest upper principal quantum number, 1 to {@link #MAX_N}
      * @param minHertz lower end of the window (Hz)
      * @param maxHertz upper end of the window (Hz)
@@ -160,7 +185,8 @@ public final class HydrogenLikeLines {
      * @param l    orbital quantum number
      * @param twoJ twice j
      * @return the radiative lifetime 1 / sum(A) in s from E1 decays; positive infinity when the
-     *         level has none (see the class comment)
+     *         level has none (see the class comment). The branching ratio of decay i is
+     *         {@code decays(n, l, twoJ).einsteinA(i) * lifetime(n, l, twoJ)}.
      */
     public double lifetime(int n, int l, int twoJ) {
         LineTable decays = decays(n, l, twoJ);

@@ -5,6 +5,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Wavelength;
 
 /**
  * Hydrogen and deuterium against published values. The level energies and transition
@@ -99,8 +101,11 @@ class PublishedHydrogenTest {
         assertComponent(alpha, 3, 1, 1, 2, 0, 1, 2.2449e7, 1.4503e-1);
         assertComponent(alpha, 3, 0, 1, 2, 1, 1, 2.1046e6, 1.3597e-2);
         assertComponent(alpha, 3, 0, 1, 2, 1, 3, 4.2097e6, 1.3599e-2);
-        // Lyman alpha components: 2p3/2 and 2p1/2 -> 1s, A 6.2647e8 and 6.2648e8, f 0.27760 and 0.13880.
-        LineTable lyman = lines.components(2, 2.4e15, 2.5e15);
+        // Lyman alpha components: 2p3/2 and 2p1/2 -> 1s, A 6.2647e8 and 6.2648e8, f 0.27760 and 0.13880;
+        // the window given as vacuum wavelengths, either way round.
+        LineTable lyman = lines.components(2, Wavelength.ofNanometres(122, Medium.vacuum()),
+                Wavelength.ofNanometres(121, Medium.vacuum()));
+        assertEquals(2, lyman.size());
         assertComponent(lyman, 2, 1, 3, 1, 0, 1, 6.2647e8, 0.27760);
         assertComponent(lyman, 2, 1, 1, 1, 0, 1, 6.2648e8, 0.13880);
     }
