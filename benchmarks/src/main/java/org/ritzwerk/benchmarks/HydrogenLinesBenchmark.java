@@ -1,8 +1,6 @@
 package org.ritzwerk.benchmarks;
 
-import java.util.ArrayList;
 import java.util.List;
-import java.util.OptionalDouble;
 import java.util.concurrent.TimeUnit;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
@@ -15,13 +13,10 @@ import org.openjdk.jmh.annotations.Scope;
 import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.annotations.Warmup;
-import org.ritzwerk.atom.Nucleus;
-import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.hydrogenic.RadialIntegrals;
-import org.ritzwerk.engine.hydrogenic.Tier;
 
 /**
  * Hydrogen lines (QED tier) with upper n up to 10 and 20: {@link HydrogenLikeLines#components}
@@ -43,29 +38,11 @@ public class HydrogenLinesBenchmark {
     private HydrogenLikeModel model;
     private HydrogenLikeLines lines;
 
-    /** One level as an object, for the baselines. */
-    public record Level(int n, int l, int twoJ, double energy) {
-    }
-
-    /** Builds the model for the proton (CODATA 2018 mass, moment and radius). */
+    /** Builds the hydrogen model (QED tier, CODATA 2018 proton). */
     @Setup
     public void setUp() {
-        Nucleus proton = new Nucleus(1, 1, PhysicalConstants.PROTON_MASS.value(), 1, OptionalDouble.of(2.79284734463),
-                OptionalDouble.of(0.8414e-15), "CODATA 2018");
-        model = HydrogenLikeModel.of(proton, Tier.QED);
+        model = HydrogenFixture.hydrogen();
         lines = HydrogenLikeLines.of(model);
-    }
-
-    private List<Level> objectLevels() {
-        List<Level> levels = new ArrayList<>();
-        for (int n = 1; n <= nMax; n++) {
-            for (int l = 0; l < n; l++) {
-                for (int twoJ = Math.max(2 * l - 1, 1); twoJ <= 2 * l + 1; twoJ += 2) {
-                    levels.add(new Level(n, l, twoJ, model.energy(n, l, twoJ)));
-                }
-            }
-        }
-        return levels;
     }
 
     /** @return every E1 component with upper n up to nMax */
@@ -77,10 +54,10 @@ public class HydrogenLinesBenchmark {
     /** @return the summed line strength (in Bohr-radius units) from every allowed pair of levels, brute force */
     @Benchmark
     public double linesBaselineAllPairs() {
-        List<Level> levels = objectLevels();
+        List<HydrogenFixture.Level> levels = HydrogenFixture.objectLevels(model, nMax);
         double total = 0;
-        for (Level upper : levels) {
-            for (Level lower : levels) {
+        for (HydrogenFixture.Level upper : levels) {
+            for (HydrogenFixture.Level lower : levels) {
                 if (upper.energy() > lower.energy() && Math.abs(upper.l() - lower.l()) == 1
                         && Math.abs(upper.twoJ() - lower.twoJ()) <= 2) {
                     double radial = RadialIntegrals.dipole(upper.n(), upper.l(), lower.n(), lower.l());

@@ -6,11 +6,22 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.refdata.NuclearData;
+import picocli.CommandLine.Option;
 
-/** Turns the --species and --model options into level models of one-electron ions. */
+/** The --species and --model options shared by the commands on one-electron ions (a picocli mixin). */
 final class Ions {
 
-    private Ions() {
+    @Option(names = "--species", required = true, paramLabel = "SPECIES",
+            description = "One-electron ions, comma-separated or repeated: \"H I\", D, \"He II\", C5+.")
+    List<String> species = new ArrayList<>();
+
+    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "qed",
+            description = "bohr, dirac, qed or hyperfine (default: ${DEFAULT-VALUE}).")
+    String model;
+
+    /** @return the models of the ions named by the options, in the order given */
+    List<Ion> resolve() {
+        return of(species, model);
     }
 
     /** A species with its model. */

@@ -7,6 +7,7 @@ import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.LevelTable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -29,13 +30,8 @@ final class LevelsCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--species", required = true, paramLabel = "SPECIES",
-            description = "One-electron ions, comma-separated or repeated: \"H I\", D, \"He II\", C5+.")
-    List<String> species = new ArrayList<>();
-
-    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "qed",
-            description = "bohr, dirac, qed or hyperfine (default: ${DEFAULT-VALUE}).")
-    String model;
+    @Mixin
+    Ions ions;
 
     @Option(names = "--n-max", paramLabel = "N", defaultValue = "4",
             description = "Highest principal quantum number (default: ${DEFAULT-VALUE}; at most 2000).")
@@ -70,7 +66,7 @@ final class LevelsCommand implements Callable<Integer> {
         }
         Table table = new Table(columns);
         double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
-        for (Ions.Ion ion : Ions.of(species, model)) {
+        for (Ions.Ion ion : ions.resolve()) {
             LevelTable levels = ion.model().levels(nMax);
             double ground = Double.POSITIVE_INFINITY;
             for (int i = 0; i < levels.size(); i++) {

@@ -12,6 +12,7 @@ import org.ritzwerk.medium.MediumException;
 import org.ritzwerk.quantity.QuantityText;
 import org.ritzwerk.quantity.SpectralQuantity;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -34,9 +35,8 @@ final class LinesCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--species", required = true, paramLabel = "SPECIES",
-            description = "One-electron ions, comma-separated or repeated: \"H I\", D, \"He II\", C5+.")
-    List<String> species = new ArrayList<>();
+    @Mixin
+    Ions ions;
 
     @Option(names = "--from", required = true, paramLabel = "QUANTITY", description = "One end of the window.")
     String from;
@@ -47,10 +47,6 @@ final class LinesCommand implements Callable<Integer> {
     @Option(names = "--medium", paramLabel = "MEDIUM", defaultValue = "vacuum",
             description = "Medium of the wavelength column in the table: vacuum or air (default: ${DEFAULT-VALUE}).")
     String medium;
-
-    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "qed",
-            description = "bohr, dirac, qed or hyperfine (default: ${DEFAULT-VALUE}).")
-    String model;
 
     @Option(names = "--n-max", paramLabel = "N", defaultValue = "30",
             description = "Highest upper principal quantum number (default: ${DEFAULT-VALUE}; at most 2000).")
@@ -96,7 +92,7 @@ final class LinesCommand implements Callable<Integer> {
             throw new IllegalArgumentException("--from and --to are the same position; give a window");
         }
         List<Line> found = new ArrayList<>();
-        for (Ions.Ion ion : Ions.of(species, model)) {
+        for (Ions.Ion ion : ions.resolve()) {
             HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
             LineTable table = multiplets ? generator.multiplets(nMax, one, two) : generator.components(nMax, one, two);
             for (int i = 0; i < table.size(); i++) {
