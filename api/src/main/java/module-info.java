@@ -8,6 +8,7 @@ module org.ritzwerk.api {
     exports org.ritzwerk;
     exports org.ritzwerk.atom;
     exports org.ritzwerk.constants;
+    exports org.ritzwerk.data;
     exports org.ritzwerk.medium;
     exports org.ritzwerk.quantity;
 }

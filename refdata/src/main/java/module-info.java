@@ -1,9 +1,18 @@
 /**
- * Ritzwerk's reference data and the readers of user data files. Every problem in a user file is
- * reported with file, line and column, all at once.
+ * Ritzwerk's reference data: the registry of data providers (found with ServiceLoader), the
+ * built-in data sets, and the readers and writers of user data files. Every problem in a user
+ * file is reported with file, line and column, all at once.
  */
 module org.ritzwerk.refdata {
     requires transitive org.ritzwerk.api;
+    requires org.ritzwerk.engine;
+    requires tools.jackson.databind;
+    requires tools.jackson.dataformat.csv;
 
     exports org.ritzwerk.refdata;
+
+    uses org.ritzwerk.data.ReferenceDataProvider;
+
+    provides org.ritzwerk.data.ReferenceDataProvider with org.ritzwerk.refdata.NuclearProvider,
+            org.ritzwerk.refdata.LampProvider, org.ritzwerk.refdata.HydrogenLikeProvider;
 }

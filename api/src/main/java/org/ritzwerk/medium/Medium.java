@@ -38,6 +38,27 @@ public sealed interface Medium permits Medium.Vacuum, Medium.Air {
     }
 
     /**
+     * @param text {@code vacuum}, {@code air} (standard air) or {@code air(<model spec>)}, the
+     *             form {@link #spec()} writes
+     * @return the medium
+     * @throws MediumException for any other text, naming the accepted forms
+     */
+    static Medium parse(String text) {
+        String t = text.strip();
+        if (t.equals("vacuum")) {
+            return vacuum();
+        }
+        if (t.equals("air")) {
+            return air();
+        }
+        if (t.startsWith("air(") && t.endsWith(")")) {
+            return air(AirModels.parse(t.substring(4, t.length() - 1)));
+        }
+        throw new MediumException(MediumException.UNKNOWN_MODEL, "unknown medium '" + t
+                + "'; expected vacuum, air or air(<model>), e.g. air(ciddor1996:T=20C,p=101325Pa,RH=40%,CO2=450ppm)");
+    }
+
+    /**
      * @param wavelengthMetres a wavelength in this medium, metres; finite and positive
      * @return the vacuum wavelength in metres
      * @throws MediumException when the wavelength is outside the air model's validity range

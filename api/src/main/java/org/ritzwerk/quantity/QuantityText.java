@@ -9,7 +9,6 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.ritzwerk.internal.DecimalText;
 import org.ritzwerk.medium.AirModel;
-import org.ritzwerk.medium.AirModels;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
 
@@ -382,13 +381,11 @@ public final class QuantityText {
             String token = text.startsWith("air(", pos) && text.indexOf(')', pos) > 0
                     ? text.substring(pos, text.indexOf(')', pos) + 1) : word();
             Medium medium;
-            if (token.equals("vacuum")) {
-                medium = Medium.vacuum();
-            } else if (token.equals("air")) {
+            if (token.equals("air")) {
                 medium = air;
-            } else if (token.startsWith("air(")) {
+            } else if (token.equals("vacuum") || token.startsWith("air(")) {
                 try {
-                    medium = Medium.air(AirModels.parse(token.substring(4, token.length() - 1)));
+                    medium = Medium.parse(token);
                 } catch (MediumException e) {
                     throw fail(QuantityParseException.UNKNOWN_MEDIUM, e.getMessage());
                 }

@@ -17,6 +17,11 @@ import java.util.stream.Collectors;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.Isotope;
+import org.ritzwerk.data.IsotopeTable;
+import org.ritzwerk.data.Provenance;
 
 /**
  * Nuclear data of isotopes (atomic mass, spin, magnetic moment, charge radius), each value with
@@ -31,6 +36,16 @@ import org.ritzwerk.atom.Species;
  */
 public final class NuclearData {
 
+    /** The id of the built-in isotope table. */
+    public static final String DATA_SET_ID = "nuclear-isotopes";
+    /** What the built-in isotope table is. */
+    public static final DataSetInfo INFO = new DataSetInfo(DATA_SET_ID, DataKind.NUCLEAR,
+            "Nuclear masses, spins, moments and charge radii of 88 isotopes", "2021",
+            Provenance.published("M. Wang et al., Chin. Phys. C 45, 030003 (2021) (AME2020 masses); N. J. Stone, "
+                    + "INDC(NDS)-0794 (2019) and CODATA 2018 (moments); I. Angeli and K. P. Marinova, At. Data "
+                    + "Nucl. Data Tables 99, 69 (2013) and CODATA 2018 (radii); Blue Obelisk data (spins)"),
+            java.util.List.of());
+
     private static final String ISOTOPES = "nuclear/isotopes.csv";
     private static final String DEFAULTS = "nuclear/most-abundant.csv";
     private static volatile NuclearData builtIn;
@@ -41,30 +56,6 @@ public final class NuclearData {
     private NuclearData(Map<Integer, Map<Integer, Isotope>> byElement, Map<Integer, Integer> defaults) {
         this.byElement = byElement;
         this.defaults = defaults;
-    }
-
-    /**
-     * One isotope's data as tabulated.
-     *
-     * @param z                atomic number
-     * @param massNumber       mass number
-     * @param atomicMass       neutral-atom mass in u
-     * @param atomicMassUncertainty its standard uncertainty in u
-     * @param twiceSpin        twice the nuclear spin
-     * @param magneticMoment   magnetic moment in nuclear magnetons (empty for spin 0)
-     * @param chargeRadiusFm   rms charge radius in fm (empty when not tabulated)
-     * @param source           the source keys of mass, spin and moment, and radius
-     */
-    public record Isotope(int z, int massNumber, double atomicMass, double atomicMassUncertainty, int twiceSpin,
-            OptionalDouble magneticMoment, OptionalDouble chargeRadiusFm, String source) {
-
-        /** @return the nucleus the level models take */
-        public Nucleus nucleus() {
-            OptionalDouble radius = chargeRadiusFm.isPresent()
-                    ? OptionalDouble.of(chargeRadiusFm.getAsDouble() * 1e-15) : OptionalDouble.empty();
-            return new Nucleus(z, massNumber, Nucleus.nuclearMassKg(z, atomicMass), twiceSpin, magneticMoment, radius,
-                    source);
-        }
     }
 
     /** @return the built-in data set, read on first use (thread-safe) */
@@ -118,6 +109,11 @@ public final class NuclearData {
         List<Isotope> all = new ArrayList<>();
         byElement.values().forEach(map -> all.addAll(map.values()));
         return Collections.unmodifiableList(all);
+    }
+
+    /** @return the isotopes as a reference data set */
+    public IsotopeTable table() {
+        return new IsotopeTable(INFO, isotopes());
     }
 
     /**

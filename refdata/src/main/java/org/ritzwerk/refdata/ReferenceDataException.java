@@ -8,6 +8,10 @@ public final class ReferenceDataException extends RitzwerkException {
 
     /** Code: the isotope asked for is not in the data set. */
     public static final String UNKNOWN_ISOTOPE = "refdata.unknown-isotope";
+    /** Code: no provider offers a data set with that id. */
+    public static final String UNKNOWN_DATA_SET = "refdata.unknown-data-set";
+    /** Code: a provider failed to list or load its data. */
+    public static final String PROVIDER_FAILED = "refdata.provider-failed";
     /** Code: a built-in data file does not read (a packaging bug). */
     public static final String BAD_BUILT_IN = "refdata.bad-built-in";
 

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.data.Isotope;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 
@@ -27,7 +28,7 @@ class NuclearDataTest {
 
     @Test
     void hydrogenIsotopesCarrySpinMomentAndRadius() {
-        NuclearData.Isotope hydrogen = data.isotope(Species.parse("H"));
+        Isotope hydrogen = data.isotope(Species.parse("H"));
         assertEquals(1, hydrogen.twiceSpin());
         // CODATA 2018: mu_p / mu_N = 2.79284734463(82), r_p = 0.8414(19) fm.
         assertEquals(2.79284734463, hydrogen.magneticMoment().getAsDouble(), 1e-11);
@@ -47,7 +48,7 @@ class NuclearDataTest {
     @Test
     void everyRowReadsIntoANucleus() {
         assertTrue(data.isotopes().size() >= 88);
-        for (NuclearData.Isotope isotope : data.isotopes()) {
+        for (Isotope isotope : data.isotopes()) {
             Nucleus nucleus = isotope.nucleus();
             // Atomic mass to within 0.1 u of the mass number (common practice).
             assertEquals(isotope.massNumber(), isotope.atomicMass(), 0.1, () -> isotope.toString());

@@ -1,0 +1,11 @@
+package org.ritzwerk.data;
+
+/** A loaded reference data set: lines, levels or isotopes, with what it is. */
+public sealed interface DataSet permits LineList, LevelList, IsotopeTable {
+
+    /** @return the id, kind, title, version, provenance and coverage */
+    DataSetInfo info();
+
+    /** @return the number of entries */
+    int size();
+}

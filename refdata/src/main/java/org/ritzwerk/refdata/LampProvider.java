@@ -1,0 +1,72 @@
+package org.ritzwerk.refdata;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.util.ArrayList;
+import java.util.List;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSet;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.Origin;
+import org.ritzwerk.data.ReferenceDataProvider;
+
+/**
+ * Built-in calibration-lamp line sets in air (Hg I, Ne I, Ar I, Kr I, Xe I) from the NIST
+ * Handbook of Basic Atomic Spectroscopic Data (Sansonetti &amp; Martin 2005), stored in the
+ * project's own line-list format under {@code lamps/} with the full citation in each header.
+ * Users should check their own lamp's data. Thread-safe; files are read when a set is loaded.
+ */
+public final class LampProvider implements ReferenceDataProvider {
+
+    private static final List<String> FILES =
+            List.of("lamp-hg-i", "lamp-ne-i", "lamp-ar-i", "lamp-kr-i", "lamp-xe-i");
+
+    @Override
+    public String id() {
+        return "ritzwerk-lamps";
+    }
+
+    @Override
+    public Origin origin() {
+        return Origin.BUILT_IN;
+    }
+
+    private volatile List<DataSetInfo> infos;
+
+    @Override
+    public List<DataSetInfo> dataSets() {
+        List<DataSetInfo> listed = infos;
+        if (listed == null) {
+            List<DataSetInfo> read = new ArrayList<>();
+            for (String id : FILES) {
+                read.add(read(id).info());
+            }
+            listed = List.copyOf(read);
+            infos = listed;
+        }
+        return listed;
+    }
+
+    @Override
+    public DataSet load(String dataSetId) {
+        if (!FILES.contains(dataSetId)) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
+                    "no lamp set '" + dataSetId + "'; known: " + String.join(", ", FILES));
+        }
+        return read(dataSetId);
+    }
+
+    private static LineList read(String id) {
+        String resource = "lamps/" + id + ".csv";
+        try (InputStream in = LampProvider.class.getResourceAsStream(resource)) {
+            if (in == null) {
+                throw new IllegalStateException("built-in lamp file missing from the jar: " + resource);
+            }
+            return LineListFiles.read(in, resource, DataKind.LAMP_LINES);
+        } catch (IOException e) {
+            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
+        }
+    }
+}

@@ -1,0 +1,35 @@
+package org.ritzwerk.refdata;
+
+import java.util.List;
+import org.ritzwerk.data.DataSet;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.Origin;
+import org.ritzwerk.data.ReferenceDataProvider;
+
+/** The built-in nuclear data ({@link NuclearData}) as a provider. Thread-safe. */
+public final class NuclearProvider implements ReferenceDataProvider {
+
+    @Override
+    public String id() {
+        return "ritzwerk-nuclear";
+    }
+
+    @Override
+    public Origin origin() {
+        return Origin.BUILT_IN;
+    }
+
+    @Override
+    public List<DataSetInfo> dataSets() {
+        return List.of(NuclearData.INFO);
+    }
+
+    @Override
+    public DataSet load(String dataSetId) {
+        if (!NuclearData.DATA_SET_ID.equals(dataSetId)) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
+                    "no nuclear set '" + dataSetId + "'; known: " + NuclearData.DATA_SET_ID);
+        }
+        return NuclearData.builtIn().table();
+    }
+}

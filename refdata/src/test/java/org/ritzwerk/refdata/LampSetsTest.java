@@ -1,0 +1,74 @@
+package org.ritzwerk.refdata;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.Provenance;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Unit;
+
+/**
+ * The built-in lamp sets against their named source: J. E. Sansonetti and W. C. Martin, Handbook
+ * of Basic Atomic Spectroscopic Data, J. Phys. Chem. Ref. Data 34, 1559 (2005), strong-lines
+ * tables (air wavelengths), read via the copy named in each file's header. The classic lines
+ * below are the table's values; each is also within 0.002 nm of the value commonly quoted for
+ * that lamp line (from memory).
+ */
+class LampSetsTest {
+
+    private final DataRegistry registry = DataRegistry.builtIn();
+
+    @Test
+    void classicLinesAsTheHandbookPrintsThem() {
+        assertLine("lamp-hg-i", 253.6517, 253.652);
+        assertLine("lamp-hg-i", 404.6563, 404.656);
+        assertLine("lamp-hg-i", 435.8328, 435.833);
+        assertLine("lamp-hg-i", 546.0735, 546.074);
+        assertLine("lamp-hg-i", 576.9598, 576.960);
+        assertLine("lamp-hg-i", 579.0663, 579.066);
+        assertLine("lamp-ne-i", 585.24879, 585.249);
+        assertLine("lamp-ne-i", 640.2248, 640.225);
+        assertLine("lamp-ar-i", 696.5431, 696.543);
+        assertLine("lamp-ar-i", 763.5106, 763.511);
+        assertLine("lamp-ar-i", 811.5311, 811.531);
+        assertLine("lamp-kr-i", 557.02894, 557.029);
+        assertLine("lamp-kr-i", 587.09160, 587.092);
+        assertLine("lamp-kr-i", 760.15457, 760.155);
+        assertLine("lamp-xe-i", 823.1635, 823.163);
+        assertLine("lamp-xe-i", 881.9411, 881.941);
+    }
+
+    @Test
+    void everyLampSetIsAnAirListWithItsSourceAndTheUsualCaution() {
+        Map<String, Integer> minimum = Map.of("lamp-hg-i", 15, "lamp-ne-i", 15, "lamp-ar-i", 15, "lamp-kr-i", 15,
+                "lamp-xe-i", 15);
+        minimum.forEach((id, least) -> {
+            LineList lamp = (LineList) registry.load(id);
+            assertEquals(DataKind.LAMP_LINES, lamp.info().kind());
+            assertEquals(Provenance.Kind.PUBLISHED, lamp.info().provenance().kind());
+            assertTrue(lamp.info().provenance().detail().contains("Sansonetti"), id);
+            assertTrue(lamp.note().contains("Check the data sheet of your own lamp"), id);
+            assertEquals(Unit.NANOMETRE, lamp.unit());
+            assertEquals(Medium.air(), lamp.medium());
+            assertTrue(lamp.size() >= least, id + " has " + lamp.size());
+            for (int i = 1; i < lamp.size(); i++) {
+                assertTrue(lamp.position(i) > lamp.position(i - 1), id + " sorted by wavelength");
+            }
+        });
+    }
+
+    private void assertLine(String id, double handbook, double commonlyQuoted) {
+        LineList lamp = (LineList) registry.load(id);
+        for (int i = 0; i < lamp.size(); i++) {
+            if (lamp.position(i) == handbook) {
+                assertEquals(commonlyQuoted, lamp.position(i), 0.002, id);
+                return;
+            }
+        }
+        throw new AssertionError(id + " lacks the handbook line " + handbook + " nm");
+    }
+}
