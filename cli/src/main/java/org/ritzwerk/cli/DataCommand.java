@@ -1,0 +1,199 @@
+package org.ritzwerk.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSet;
+import org.ritzwerk.data.Isotope;
+import org.ritzwerk.data.IsotopeTable;
+import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.LineListFiles;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code ritzwerk data}: the reference data sets, their sources, and checks of user files. */
+@Command(name = "data",
+        mixinStandardHelpOptions = true,
+        description = {
+            "List the reference data sets with their sources (built-in, from provider jars on the",
+            "class path, and your own files given with --file), in order of precedence: your files,",
+            "then third parties, then built-in. 'data show ID' prints one set; 'data check FILE'",
+            "checks a line list in the ritzwerk-lines format and reports every problem."
+        },
+        subcommands = {DataCommand.Show.class, DataCommand.Check.class},
+        footer = {"", "Examples:",
+            "  ritzwerk data",
+            "  ritzwerk data show lamp-ne-i",
+            "  ritzwerk data show lamp-ne-i --format csv > my-neon.csv",
+            "  ritzwerk data check my-neon.csv",
+            "  ritzwerk data --file my-neon.csv"})
+final class DataCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--file", paramLabel = "FILE", description = "Add a line list of your own (CSV or JSON). Repeatable.")
+    List<Path> files = new ArrayList<>();
+
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
+            description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
+    Table.Format format;
+
+    @Override
+    public Integer call() {
+        Table table = new Table(List.of(
+                Table.Column.text("id", "id"),
+                Table.Column.text("kind", "kind"),
+                Table.Column.text("origin", "origin"),
+                Table.Column.text("provider", "provider"),
+                Table.Column.text("version", "version"),
+                Table.Column.text("title", "title"),
+                Table.Column.text("source", "source")));
+        for (DataRegistry.Listing listing : registry(files).list()) {
+            String source = listing.info().provenance().render();
+            table.add(listing.info().id(), listing.info().kind().id(), listing.origin().name().toLowerCase()
+                    .replace('_', '-'), listing.providerId(), listing.info().version(), listing.info().title(),
+                    format == Table.Format.text && source.length() > 60 ? source.substring(0, 57) + "..." : source);
+        }
+        table.write(spec.commandLine().getOut(), format);
+        return 0;
+    }
+
+    /** The registry of every discovered provider plus the user's files. */
+    static DataRegistry registry(List<Path> files) {
+        DataRegistry registry = DataRegistry.discoverDefault();
+        for (Path file : files) {
+            registry = registry.withUserFile(file);
+        }
+        return registry;
+    }
+
+    /** {@code ritzwerk data show ID}. */
+    @Command(name = "show", mixinStandardHelpOptions = true,
+            description = {"Print one data set. For a line list, --format csv or json writes the set in the",
+                "ritzwerk-lines file format, ready to edit and use with --file."})
+    static final class Show implements Callable<Integer> {
+
+        @Spec
+        CommandSpec spec;
+
+        @Parameters(paramLabel = "ID", description = "The data set id, as 'ritzwerk data' lists it.")
+        String id;
+
+        @Option(names = "--file", paramLabel = "FILE", description = "Add a line list of your own. Repeatable.")
+        List<Path> files = new ArrayList<>();
+
+        @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
+                description = "text (table with a header), csv or json. Default: ${DEFAULT-VALUE}.")
+        Table.Format format;
+
+        @Override
+        public Integer call() {
+            DataRegistry registry = registry(files);
+            DataSet set = registry.load(id);
+            PrintWriter out = spec.commandLine().getOut();
+            if (set instanceof LineList && format != Table.Format.text) {
+                LineList list = (LineList) set;
+                out.print(format == Table.Format.csv ? LineListFiles.writeCsv(list) : LineListFiles.writeJson(list));
+                out.flush();
+                return 0;
+            }
+            DataRegistry.Listing listing = registry.find(id).orElseThrow();
+            if (format == Table.Format.text) {
+                out.println(set.info().title() + " (" + set.info().id() + ", " + set.info().kind().id() + ", version "
+                        + set.info().version() + ", " + listing.origin().name().toLowerCase().replace('_', '-')
+                        + " from " + listing.providerId() + ")");
+                out.println("Source: " + set.info().provenance().render());
+                if (set instanceof LineList && !((LineList) set).note().isEmpty()) {
+                    out.println("Note: " + ((LineList) set).note());
+                }
+                out.println();
+            }
+            tableOf(set).write(out, format);
+            return 0;
+        }
+
+        private static Table tableOf(DataSet set) {
+            if (set instanceof LineList) {
+                LineList list = (LineList) set;
+                String unit = list.unit().symbol() + (list.medium() == null ? "" : " " + list.medium().spec());
+                Table table = new Table(List.of(Table.Column.text("species", "species"),
+                        Table.Column.text("position", "position " + unit), Table.Column.text("uncertainty", "+-"),
+                        Table.Column.text("intensity", "intensity"), Table.Column.text("strength", "strength"),
+                        Table.Column.number("einstein_a", "A s-1", "%.4e"), Table.Column.text("lower", "lower"),
+                        Table.Column.text("upper", "upper"), Table.Column.text("note", "note")));
+                for (int i = 0; i < list.size(); i++) {
+                    table.add(list.species(i).notation(), list.position(i),
+                            list.uncertainty(i).isPresent() ? (Object) list.uncertainty(i).getAsDouble() : null,
+                            list.intensity(i).isPresent() ? (Object) list.intensity(i).getAsDouble() : null,
+                            list.strength(i) == null ? null : list.strength(i).id(),
+                            list.einsteinA(i).isPresent() ? (Object) list.einsteinA(i).getAsDouble() : null,
+                            list.lower(i), list.upper(i), list.rowNote(i));
+                }
+                return table;
+            }
+            if (set instanceof LevelList) {
+                LevelList levels = (LevelList) set;
+                Table table = new Table(List.of(Table.Column.text("species", "species"), Table.Column.text("label", "level"),
+                        Table.Column.text("j", "j"), Table.Column.number("energy", "energy " + levels.unit().symbol(),
+                                "%.7f")));
+                for (int i = 0; i < levels.size(); i++) {
+                    table.add(levels.species(i).notation(), levels.label(i),
+                            levels.twoJ(i) < 0 ? null : LevelsCommand.half(levels.twoJ(i)), levels.energy(i));
+                }
+                return table;
+            }
+            IsotopeTable isotopes = (IsotopeTable) set;
+            Table table = new Table(List.of(Table.Column.text("z", "Z"), Table.Column.text("a", "A"),
+                    Table.Column.text("mass_u", "mass u"), Table.Column.text("spin", "I"),
+                    Table.Column.text("moment_nm", "moment nm"), Table.Column.text("radius_fm", "radius fm"),
+                    Table.Column.text("source", "source")));
+            for (Isotope isotope : isotopes.isotopes()) {
+                table.add(isotope.z(), isotope.massNumber(), isotope.atomicMass(), LevelsCommand.half(isotope.twiceSpin()),
+                        isotope.magneticMoment().isPresent() ? (Object) isotope.magneticMoment().getAsDouble() : null,
+                        isotope.chargeRadiusFm().isPresent() ? (Object) isotope.chargeRadiusFm().getAsDouble() : null,
+                        isotope.source());
+            }
+            return table;
+        }
+    }
+
+    /** {@code ritzwerk data check FILE...}. */
+    @Command(name = "check", mixinStandardHelpOptions = true,
+            description = {"Check line lists in the ritzwerk-lines format (CSV or JSON). Prints one line per",
+                "good file; for a bad file, every problem with file, line, column and reason (exit code 2)."})
+    static final class Check implements Callable<Integer> {
+
+        @Spec
+        CommandSpec spec;
+
+        @Parameters(paramLabel = "FILE", arity = "1..*", description = "Files to check.")
+        List<Path> files = new ArrayList<>();
+
+        @Override
+        public Integer call() {
+            int code = 0;
+            for (Path file : files) {
+                try {
+                    LineList list = LineListFiles.read(file, DataKind.LINES);
+                    spec.commandLine().getOut().println(file + ": ok, " + list.size() + " lines of "
+                            + list.coveredSpecies().size() + " species in " + list.unit().symbol()
+                            + (list.medium() == null ? "" : " " + list.medium().spec()) + " (id " + list.info().id() + ")");
+                } catch (org.ritzwerk.RitzwerkException e) {
+                    spec.commandLine().getErr().println(e.getMessage());
+                    code = ErrorReporter.BAD_INPUT;
+                }
+            }
+            spec.commandLine().getOut().flush();
+            return code;
+        }
+    }
+}
