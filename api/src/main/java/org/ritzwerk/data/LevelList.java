@@ -25,6 +25,18 @@ public final class LevelList implements DataSet {
     private final int[] twoJ;
     private final String[] rowNote;
 
+    private LevelList(LevelList table, DataSetInfo info) {
+        this.info = info;
+        this.unit = table.unit;
+        this.note = table.note;
+        this.species = table.species;
+        this.label = table.label;
+        this.energy = table.energy;
+        this.uncertainty = table.uncertainty;
+        this.twoJ = table.twoJ;
+        this.rowNote = table.rowNote;
+    }
+
     private LevelList(Builder b) {
         this.info = b.info;
         this.unit = b.unit;
@@ -50,6 +62,17 @@ public final class LevelList implements DataSet {
     @Override
     public DataSetInfo info() {
         return info;
+    }
+
+    /**
+     * @param newInfo what the table is (kind levels)
+     * @return the same rows under that info
+     */
+    public LevelList withInfo(DataSetInfo newInfo) {
+        if (newInfo.kind() != DataKind.LEVELS) {
+            throw new IllegalArgumentException("a level list needs kind levels, got " + newInfo.kind().id());
+        }
+        return new LevelList(this, newInfo);
     }
 
     @Override

@@ -5,14 +5,15 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.Isotope;
 import org.ritzwerk.data.IsotopeTable;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.LevelListFiles;
 import org.ritzwerk.refdata.LineListFiles;
+import org.ritzwerk.refdata.UserFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -26,7 +27,7 @@ import picocli.CommandLine.Spec;
             "List the reference data sets with their sources (built-in, from provider jars on the",
             "class path, and your own files given with --file), in order of precedence: your files,",
             "then third parties, then built-in. 'data show ID' prints one set; 'data check FILE'",
-            "checks a line list in the ritzwerk-lines format and reports every problem."
+            "checks a file in the ritzwerk-lines or ritzwerk-levels format and reports every problem."
         },
         subcommands = {DataCommand.Show.class, DataCommand.Check.class},
         footer = {"", "Examples:",
@@ -40,7 +41,8 @@ final class DataCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--file", paramLabel = "FILE", description = "Add a line list of your own (CSV or JSON). Repeatable.")
+    @Option(names = "--file", paramLabel = "FILE",
+            description = "Add a line list or level table of your own (CSV or JSON). Repeatable.")
     List<Path> files = new ArrayList<>();
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
@@ -106,6 +108,12 @@ final class DataCommand implements Callable<Integer> {
                 out.flush();
                 return 0;
             }
+            if (set instanceof LevelList && format != Table.Format.text) {
+                LevelList levels = (LevelList) set;
+                out.print(format == Table.Format.csv ? LevelListFiles.writeCsv(levels) : LevelListFiles.writeJson(levels));
+                out.flush();
+                return 0;
+            }
             DataRegistry.Listing listing = registry.find(id).orElseThrow();
             if (format == Table.Format.text) {
                 out.println(set.info().title() + " (" + set.info().id() + ", " + set.info().kind().id() + ", version "
@@ -168,7 +176,7 @@ final class DataCommand implements Callable<Integer> {
 
     /** {@code ritzwerk data check FILE...}. */
     @Command(name = "check", mixinStandardHelpOptions = true,
-            description = {"Check line lists in the ritzwerk-lines format (CSV or JSON). Prints one line per",
+            description = {"Check files in the ritzwerk-lines or ritzwerk-levels format (CSV or JSON). One line per",
                 "good file; for a bad file, every problem with file, line, column and reason (exit code 2)."})
     static final class Check implements Callable<Integer> {
 
@@ -183,10 +191,18 @@ final class DataCommand implements Callable<Integer> {
             int code = 0;
             for (Path file : files) {
                 try {
-                    LineList list = LineListFiles.read(file, DataKind.LINES);
-                    spec.commandLine().getOut().println(file + ": ok, " + list.size() + " lines of "
-                            + list.coveredSpecies().size() + " species in " + list.unit().symbol()
-                            + (list.medium() == null ? "" : " " + list.medium().spec()) + " (id " + list.info().id() + ")");
+                    DataSet set = UserFiles.read(file);
+                    String what;
+                    if (set instanceof LineList) {
+                        LineList list = (LineList) set;
+                        what = list.size() + " lines of " + list.coveredSpecies().size() + " species in "
+                                + list.unit().symbol() + (list.medium() == null ? "" : " " + list.medium().spec());
+                    } else {
+                        LevelList levels = (LevelList) set;
+                        what = levels.size() + " levels of " + levels.info().species().size() + " species in "
+                                + levels.unit().symbol();
+                    }
+                    spec.commandLine().getOut().println(file + ": ok, " + what + " (id " + set.info().id() + ")");
                 } catch (org.ritzwerk.RitzwerkException e) {
                     spec.commandLine().getErr().println(e.getMessage());
                     code = ErrorReporter.BAD_INPUT;

@@ -15,7 +15,6 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
-import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
 
@@ -107,14 +106,15 @@ public final class DataRegistry {
     }
 
     /**
-     * @param file a line list in the project's CSV or JSON format; read and checked now
+     * @param file a line list or level table in the project's CSV or JSON formats; read and
+     *             checked now
      * @return a registry with that file first in precedence
      * @throws DataFileException with every problem in the file
      */
     public DataRegistry withUserFile(Path file) {
-        LineList list = LineListFiles.read(file, DataKind.LINES);
+        DataSet set = UserFiles.read(file);
         List<Ranked> more = new ArrayList<>(providers);
-        more.add(new Ranked(new FileProvider(file.toString(), list), Origin.USER));
+        more.add(new Ranked(new FileProvider(file.toString(), set), Origin.USER));
         return new DataRegistry(more);
     }
 
@@ -210,7 +210,7 @@ public final class DataRegistry {
     }
 
     /** A user file as a provider. */
-    private record FileProvider(String name, LineList list) implements ReferenceDataProvider {
+    private record FileProvider(String name, DataSet list) implements ReferenceDataProvider {
         @Override
         public String id() {
             return "file:" + name;

@@ -1,0 +1,661 @@
+package org.ritzwerk.refdata;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.StringWriter;
+import java.io.UncheckedIOException;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CodingErrorAction;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.OptionalDouble;
+import java.util.Set;
+import java.util.regex.Pattern;
+import org.ritzwerk.RitzwerkException;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.Provenance;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Kind;
+import org.ritzwerk.quantity.Unit;
+import tools.jackson.core.JacksonException;
+import tools.jackson.core.JsonParser;
+import tools.jackson.core.JsonToken;
+import tools.jackson.core.TokenStreamLocation;
+import tools.jackson.databind.DeserializationFeature;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.MappingIterator;
+import tools.jackson.databind.json.JsonMapper;
+import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.ObjectNode;
+import tools.jackson.dataformat.csv.CsvMapper;
+import tools.jackson.dataformat.csv.CsvReadFeature;
+import tools.jackson.dataformat.csv.CsvSchema;
+
+/**
+ * What the project's table file formats (line lists, level tables) share: a header of keys and
+ * values, then rows of named columns, in CSV ({@code # key: value} lines, a row of column names,
+ * data rows) or JSON (one object with the header keys and an array of row objects), read with
+ * Jackson, every problem collected with line, column and code. Package-private; the formats'
+ * public faces are {@link LineListFiles} and {@link LevelListFiles}. Stateless and thread-safe.
+ */
+final class TabularFiles {
+
+    /** The largest file read, in bytes (64 MiB). */
+    static final long MAX_BYTES = 64L << 20;
+    /** The most rows read. */
+    static final int MAX_ROWS = 1_000_000;
+
+    private static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
+    private static final int MAX_TEXT = 500;
+    /** Reads values out of a running parser, so a value is not the end of the input. */
+    private static final JsonMapper JSON = JsonMapper.builder()
+            .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
+    private static final CsvMapper CSV = CsvMapper.builder().enable(CsvReadFeature.ALLOW_COMMENTS)
+            .enable(CsvReadFeature.WRAP_AS_ARRAY).build();
+
+    private TabularFiles() {
+    }
+
+    /**
+     * What one format is.
+     *
+     * @param format          the format name, e.g. {@code ritzwerk-lines}
+     * @param version         the format version
+     * @param unitKey         the header key of the unit, e.g. {@code position-unit}
+     * @param headerKeys      every header key, in the order written
+     * @param requiredKeys    the header keys that must be present
+     * @param columns         every column, in the order written
+     * @param requiredColumns the columns that must be present and filled
+     * @param numericColumns  the columns holding numbers
+     * @param arrayKey        the JSON key of the rows, e.g. {@code lines}
+     */
+    record Spec(String format, int version, String unitKey, List<String> headerKeys, List<String> requiredKeys,
+            List<String> columns, List<String> requiredColumns, List<String> numericColumns, String arrayKey) {
+
+        /** @return the JSON spelling of a header key: {@code position-unit} becomes {@code positionUnit} */
+        String jsonKey(String key) {
+            int dash = key.indexOf('-');
+            return dash < 0 ? key : key.substring(0, dash) + Character.toUpperCase(key.charAt(dash + 1))
+                    + key.substring(dash + 2);
+        }
+    }
+
+    /** One data row as read: its line, raw text, and the value of each column (String, Double or null). */
+    record Row(int line, String raw, Map<String, Object> values) {
+    }
+
+    /** A file read into its header and rows, with every problem found; the formats add their own. */
+    static final class Parsed {
+        final Spec spec;
+        final String source;
+        final String[] lines;
+        final Map<String, String> header = new LinkedHashMap<>();
+        final Map<String, Integer> headerLine = new HashMap<>();
+        final List<Row> rows = new ArrayList<>();
+        final List<DataProblem> problems = new ArrayList<>();
+        Map<String, Integer> columnIndex = Map.of();
+
+        Parsed(Spec spec, String source, String text) {
+            this.spec = spec;
+            this.source = source;
+            this.lines = text.split("\\R", -1);
+        }
+
+        String raw(int line) {
+            return line >= 1 && line <= lines.length ? lines[line - 1] : "";
+        }
+
+        void problem(int line, int column, String code, String reason, String raw) {
+            String text = raw.isEmpty() ? raw(line) : raw;
+            problems.add(new DataProblem(source, Math.max(line, 1), Math.max(column, 0), code, reason,
+                    text.length() > 200 ? text.substring(0, 200) + "..." : text));
+        }
+
+        void headerProblem(String key, String code, String reason) {
+            problem(headerLine.getOrDefault(key, 1), 0, code, reason, "");
+        }
+
+        void rowProblem(Row row, String column, String code, String reason) {
+            problem(row.line(), columnIndex.getOrDefault(column, 0), code, "column " + column + ": " + reason, row.raw());
+        }
+
+        /** Throws every problem, in file order (line, then column), if there is any. */
+        void throwIfAny() {
+            if (!problems.isEmpty()) {
+                List<DataProblem> ordered = new ArrayList<>(problems);
+                ordered.sort(java.util.Comparator.comparingInt(DataProblem::line).thenComparingInt(DataProblem::column));
+                throw new DataFileException(DataFileException.INVALID, source, ordered, "");
+            }
+        }
+
+        // ---- header values
+
+        /** Checks required keys and one-line values; @return whether the header so far is sound */
+        boolean checkHeader() {
+            int before = problems.size();
+            for (String key : spec.requiredKeys()) {
+                String value = header.get(key);
+                if (value == null || value.isBlank()) {
+                    problem(1, 0, "data.header", "required header '" + key + "' is missing or empty", "");
+                }
+            }
+            for (Map.Entry<String, String> entry : header.entrySet()) {
+                String value = entry.getValue();
+                if (value.indexOf('\n') >= 0 || value.indexOf('\r') >= 0 || value.length() > 2000) {
+                    headerProblem(entry.getKey(), "data.header", "header '" + entry.getKey()
+                            + "' must be one line of at most 2000 characters");
+                }
+            }
+            String id = header.getOrDefault("id", "");
+            if (!id.isBlank() && !DataSetInfo.isValidId(id)) {
+                headerProblem("id", "data.header", "id '" + id + "' must be lower-case letters, digits, dots and dashes");
+            }
+            return problems.size() == before;
+        }
+
+        Provenance.Kind provenance() {
+            if (header.containsKey("provenance")) {
+                try {
+                    return Provenance.Kind.fromId(header.get("provenance"));
+                } catch (IllegalArgumentException e) {
+                    headerProblem("provenance", "data.header", e.getMessage());
+                }
+            }
+            return Provenance.Kind.PUBLISHED;
+        }
+
+        /** @return the unit of the spec's unit key if it is one of the allowed kinds, else null (reported) */
+        Unit unit(Set<Kind> allowed) {
+            String text = header.get(spec.unitKey());
+            if (text == null || text.isBlank()) {
+                return null;
+            }
+            Unit unit = Unit.fromSymbol(text).orElse(null);
+            if (unit == null || !allowed.contains(unit.kind())) {
+                List<String> known = new ArrayList<>();
+                for (Unit u : Unit.values()) {
+                    if (allowed.contains(u.kind())) {
+                        known.add(u.symbol());
+                    }
+                }
+                headerProblem(spec.unitKey(), "data.unknown-unit", "unknown " + spec.unitKey().replace('-', ' ') + " '"
+                        + text + "'; known: " + String.join(", ", known));
+                return null;
+            }
+            return unit;
+        }
+
+        /** @return the medium for a wavelength unit (reported when missing or unknown), null otherwise */
+        Medium medium(Unit unit) {
+            String text = header.get("medium");
+            if (unit == null) {
+                return null;
+            }
+            if (unit.kind() == Kind.WAVELENGTH) {
+                if (text == null || text.isBlank()) {
+                    headerProblem(spec.unitKey(), "data.missing-medium",
+                            "wavelengths need a 'medium' header: vacuum, air or air(<model>)");
+                    return null;
+                }
+                try {
+                    return Medium.parse(text);
+                } catch (RitzwerkException e) {
+                    headerProblem("medium", "data.unknown-medium", e.getMessage());
+                    return null;
+                }
+            }
+            if (text != null) {
+                headerProblem("medium", "data.medium-not-allowed", "a medium is given for " + unit.kind().noun()
+                        + " values (" + unit.symbol() + "); only wavelengths have one");
+            }
+            return null;
+        }
+
+        // ---- row values
+
+        Species species(Row row, Map<String, Species> cache) {
+            Object value = row.values().get("species");
+            if (value == null) {
+                rowProblem(row, "species", "data.missing-value", "species is required");
+                return null;
+            }
+            if (!(value instanceof String)) {
+                rowProblem(row, "species", "data.wrong-type", "species must be text such as 'Ne I'");
+                return null;
+            }
+            String text = (String) value;
+            Species cached = cache.get(text);
+            if (cached != null) {
+                return cached;
+            }
+            try {
+                Species species = Species.parse(text);
+                cache.put(text, species);
+                return species;
+            } catch (RitzwerkException e) {
+                rowProblem(row, "species", "data.unknown-species", e.getMessage());
+                return null;
+            }
+        }
+
+        /** @return the value, NaN when absent and optional (or when a problem was recorded) */
+        double number(Row row, String column, boolean required) {
+            Object value = row.values().get(column);
+            if (value == null) {
+                if (required) {
+                    rowProblem(row, column, "data.missing-value", column + " is required");
+                }
+                return Double.NaN;
+            }
+            double number;
+            if (value instanceof Double) {
+                number = (Double) value;
+            } else {
+                String text = ((String) value).strip();
+                if (!DECIMAL.matcher(text).matches()) {
+                    rowProblem(row, column, "data.not-a-number", column + " is not a number: '" + value + "'");
+                    return Double.NaN;
+                }
+                number = Double.parseDouble(text);
+            }
+            if (!Double.isFinite(number)) {
+                rowProblem(row, column, "data.not-finite", column + " is too large for a double: '" + value + "'");
+                return Double.NaN;
+            }
+            if (number < 0) {
+                rowProblem(row, column, "data.negative", column + " must not be negative, got " + value);
+                return Double.NaN;
+            }
+            return number;
+        }
+
+        String text(Row row, String column) {
+            Object value = row.values().get(column);
+            if (value == null) {
+                return null;
+            }
+            if (!(value instanceof String)) {
+                rowProblem(row, column, "data.wrong-type", column + " must be text");
+                return null;
+            }
+            String text = (String) value;
+            if (text.length() > MAX_TEXT || text.indexOf('\n') >= 0 || text.indexOf('\r') >= 0) {
+                rowProblem(row, column, "data.bad-text", column + " must be one line of at most " + MAX_TEXT
+                        + " characters");
+                return null;
+            }
+            return text;
+        }
+    }
+
+    // ------------------------------------------------------------------ reading
+
+    /** @return the file's text, refusing files above the size limit or not in UTF-8 */
+    static String read(Path file) {
+        String name = file.toString();
+        try {
+            long size = Files.size(file);
+            if (size > MAX_BYTES) {
+                throw new DataFileException(DataFileException.TOO_LARGE, name, List.of(),
+                        "file is " + size + " bytes, more than the limit of " + MAX_BYTES + "; split it");
+            }
+            try (InputStream in = Files.newInputStream(file)) {
+                return decode(in, name);
+            }
+        } catch (IOException e) {
+            throw new DataFileException(DataFileException.UNREADABLE, name, List.of(), "cannot read: " + e.getMessage());
+        }
+    }
+
+    /** @return the stream's text (UTF-8), refusing more than the size limit or malformed bytes */
+    static String decode(InputStream in, String source) {
+        byte[] bytes;
+        try {
+            bytes = in.readNBytes((int) Math.min(MAX_BYTES + 1, Integer.MAX_VALUE - 8));
+        } catch (IOException e) {
+            throw new UncheckedIOException(source + ": " + e.getMessage(), e);
+        }
+        if (bytes.length > MAX_BYTES) {
+            throw new DataFileException(DataFileException.TOO_LARGE, source, List.of(),
+                    "more than " + MAX_BYTES + " bytes; split the file");
+        }
+        try {
+            return StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(ByteBuffer.wrap(bytes)).toString();
+        } catch (CharacterCodingException e) {
+            throw new DataFileException(DataFileException.INVALID, source,
+                    List.of(new DataProblem(source, 1, 0, "data.not-utf8", "the file is not valid UTF-8 text", "")), "");
+        }
+    }
+
+    /** @return whether to read as JSON: by extension, else by a leading '{' */
+    static boolean isJson(String source, String text) {
+        String lower = source.toLowerCase(Locale.ROOT);
+        return lower.endsWith(".json") || !lower.endsWith(".csv") && text.stripLeading().startsWith("{");
+    }
+
+    static Parsed parseCsv(Spec spec, String text, String source) {
+        Parsed p = new Parsed(spec, source, text);
+        String formatLine = spec.format() + " " + spec.version();
+        int lineNumber = 0;
+        boolean sawFormat = false;
+        for (String line : p.lines) {
+            lineNumber++;
+            String stripped = line.strip();
+            if (stripped.isEmpty()) {
+                continue;
+            }
+            if (!stripped.startsWith("#")) {
+                break;
+            }
+            String content = stripped.substring(1).strip();
+            if (!sawFormat) {
+                sawFormat = true;
+                if (!content.equals(formatLine)) {
+                    p.problem(lineNumber, 1, "data.format", content.startsWith(spec.format() + " ")
+                            ? "format version '" + content.substring(spec.format().length()).strip()
+                                    + "' is not supported; this reader reads version " + spec.version()
+                            : "the first line must be '# " + formatLine + "'", line);
+                }
+                continue;
+            }
+            if (content.isEmpty()) {
+                continue;
+            }
+            int colon = content.indexOf(':');
+            if (colon <= 0) {
+                p.problem(lineNumber, 1, "data.header", "header line must be '# key: value'", line);
+                continue;
+            }
+            String key = content.substring(0, colon).strip();
+            if (!spec.headerKeys().contains(key)) {
+                p.problem(lineNumber, 1, "data.header", "unknown header key '" + key + "'; known: "
+                        + String.join(", ", spec.headerKeys()), line);
+            } else if (p.header.put(key, content.substring(colon + 1).strip()) != null) {
+                p.problem(lineNumber, 1, "data.header", "header key '" + key + "' is given twice", line);
+            }
+            p.headerLine.put(key, lineNumber);
+        }
+        if (!sawFormat) {
+            p.problem(1, 1, "data.format", "the file must start with '# " + formatLine + "'", "");
+        }
+        try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(text)) {
+            String[] columns = null;
+            while (iterator.hasNextValue()) {
+                int line = iterator.currentLocation().getLineNr();
+                String[] fields = iterator.nextValue();
+                if (fields.length == 1 && fields[0].isBlank()) {
+                    continue;
+                }
+                if (columns == null) {
+                    columns = fields;
+                    columns(p, columns, line);
+                    continue;
+                }
+                if (fields.length != columns.length) {
+                    p.problem(line, 0, "data.field-count", "row has " + fields.length + " fields, the header has "
+                            + columns.length, "");
+                    continue;
+                }
+                Map<String, Object> values = new HashMap<>();
+                for (int c = 0; c < columns.length; c++) {
+                    values.put(columns[c].strip(), fields[c].isEmpty() ? null : fields[c]);
+                }
+                if (!addRow(p, new Row(line, p.raw(line), values))) {
+                    break;
+                }
+            }
+            if (columns == null) {
+                p.problem(lineNumber, 0, "data.no-columns", "no row of column names after the header", "");
+            }
+        } catch (JacksonException e) {
+            TokenStreamLocation where = e.getLocation();
+            int line = where == null ? 1 : Math.max(where.getLineNr(), 1);
+            p.problem(line, where == null ? 0 : Math.max(where.getColumnNr(), 0), "data.csv-syntax",
+                    "CSV syntax: " + e.getOriginalMessage(), "");
+        }
+        return p;
+    }
+
+    private static void columns(Parsed p, String[] names, int line) {
+        Map<String, Integer> index = new HashMap<>();
+        for (int c = 0; c < names.length; c++) {
+            String name = names[c].strip();
+            if (!p.spec.columns().contains(name)) {
+                p.problem(line, c + 1, "data.unknown-column", "unknown column '" + name + "'; known: "
+                        + String.join(", ", p.spec.columns()), "");
+            } else if (index.put(name, c + 1) != null) {
+                p.problem(line, c + 1, "data.duplicate-column", "column '" + name + "' appears twice", "");
+            }
+        }
+        for (String required : p.spec.requiredColumns()) {
+            if (!index.containsKey(required)) {
+                p.problem(line, 0, "data.missing-column", "required column '" + required + "' is missing", "");
+            }
+        }
+        p.columnIndex = index;
+    }
+
+    /** @return false when the row limit is passed and reading should stop */
+    private static boolean addRow(Parsed p, Row row) {
+        if (p.rows.size() >= MAX_ROWS) {
+            p.problem(row.line(), 0, DataFileException.TOO_LARGE, "more than " + MAX_ROWS + " rows; split the file",
+                    row.raw());
+            return false;
+        }
+        p.rows.add(row);
+        return true;
+    }
+
+    static Parsed parseJson(Spec spec, String text, String source) {
+        Parsed p = new Parsed(spec, source, text);
+        List<String> jsonKeys = new ArrayList<>(List.of("format", "formatVersion"));
+        spec.headerKeys().forEach(key -> jsonKeys.add(spec.jsonKey(key)));
+        jsonKeys.add(spec.arrayKey());
+        boolean sawRows = false;
+        Object format = null;
+        Object version = null;
+        int formatLine = 1;
+        try (JsonParser parser = JSON.createParser(text)) {
+            if (parser.nextToken() != JsonToken.START_OBJECT) {
+                p.problem(1, 1, "data.json-shape", "the file must be one JSON object", "");
+                return p;
+            }
+            while (parser.nextToken() == JsonToken.PROPERTY_NAME) {
+                String name = parser.currentName();
+                int line = parser.currentTokenLocation().getLineNr();
+                parser.nextToken();
+                if (name.equals(spec.arrayKey())) {
+                    sawRows = true;
+                    if (parser.currentToken() != JsonToken.START_ARRAY) {
+                        p.problem(line, 0, "data.json-shape", "'" + name + "' must be an array", "");
+                        parser.skipChildren();
+                        continue;
+                    }
+                    while (parser.nextToken() != JsonToken.END_ARRAY) {
+                        TokenStreamLocation at = parser.currentTokenLocation();
+                        JsonNode node = JSON.readTree(parser);
+                        if (!jsonRow(p, node, at.getLineNr(), at.getColumnNr())) {
+                            return p;
+                        }
+                    }
+                    continue;
+                }
+                JsonNode value = JSON.readTree(parser);
+                if (name.equals("format")) {
+                    format = value.isString() ? value.asString() : value.toString();
+                    formatLine = line;
+                } else if (name.equals("formatVersion")) {
+                    version = value.isIntegralNumber() ? (Object) value.asInt() : value.toString();
+                } else {
+                    String key = headerKeyOf(spec, name);
+                    if (key == null) {
+                        p.problem(line, 0, "data.header", "unknown key '" + name + "'; known: "
+                                + String.join(", ", jsonKeys), "");
+                    } else if (!value.isString()) {
+                        p.problem(line, 0, "data.header", "'" + name + "' must be a string", "");
+                    } else {
+                        p.header.put(key, value.asString());
+                        p.headerLine.put(key, line);
+                    }
+                }
+            }
+            if (parser.nextToken() != null) {
+                TokenStreamLocation at = parser.currentTokenLocation();
+                p.problem(at.getLineNr(), at.getColumnNr(), "data.json-shape", "text after the end of the object", "");
+            }
+        } catch (JacksonException e) {
+            TokenStreamLocation where = e.getLocation();
+            int line = where == null ? 1 : Math.max(where.getLineNr(), 1);
+            p.problem(line, where == null ? 0 : Math.max(where.getColumnNr(), 0), "data.json-syntax",
+                    "JSON syntax: " + e.getOriginalMessage(), "");
+            return p;
+        }
+        if (!spec.format().equals(format)) {
+            p.problem(formatLine, 0, "data.format", "'format' must be \"" + spec.format() + "\"", "");
+        }
+        if (!Integer.valueOf(spec.version()).equals(version)) {
+            p.problem(formatLine, 0, "data.format", "'formatVersion' must be " + spec.version()
+                    + (version == null ? "" : ", got " + version), "");
+        }
+        if (!sawRows) {
+            p.problem(1, 0, "data.json-shape", "the object has no '" + spec.arrayKey() + "' array", "");
+        }
+        Map<String, Integer> index = new HashMap<>();
+        for (int c = 0; c < spec.columns().size(); c++) {
+            index.put(spec.columns().get(c), 0);
+        }
+        p.columnIndex = index;
+        return p;
+    }
+
+    private static String headerKeyOf(Spec spec, String jsonName) {
+        for (String key : spec.headerKeys()) {
+            if (spec.jsonKey(key).equals(jsonName)) {
+                return key;
+            }
+        }
+        return null;
+    }
+
+    /** @return false when reading should stop */
+    private static boolean jsonRow(Parsed p, JsonNode node, int line, int column) {
+        String raw = p.raw(line);
+        if (!node.isObject()) {
+            p.problem(line, column, "data.json-shape", "each entry of '" + p.spec.arrayKey() + "' must be a JSON object",
+                    raw);
+            return true;
+        }
+        Map<String, Object> values = new HashMap<>();
+        boolean ok = true;
+        for (var property : node.properties()) {
+            String key = property.getKey();
+            JsonNode value = property.getValue();
+            if (!p.spec.columns().contains(key)) {
+                p.problem(line, column, "data.unknown-field", "unknown field '" + key + "'; known: "
+                        + String.join(", ", p.spec.columns()), raw);
+                ok = false;
+            } else if (value.isNull()) {
+                values.put(key, null);
+            } else if (value.isNumber()) {
+                // numberValue().doubleValue() gives infinity for an out-of-range integer, which is
+                // then reported; asDouble() would throw.
+                values.put(key, value.numberValue().doubleValue());
+            } else if (value.isString() && p.spec.numericColumns().contains(key)) {
+                p.problem(line, column, "data.wrong-type", "field '" + key + "' must be a JSON number, got the string \""
+                        + value.asString() + "\"", raw);
+                ok = false;
+            } else if (value.isString()) {
+                values.put(key, value.asString().isEmpty() ? null : value.asString());
+            } else {
+                p.problem(line, column, "data.wrong-type", "field '" + key + "' must be a number, a string or null, got "
+                        + value.getNodeType().name().toLowerCase(Locale.ROOT), raw);
+                ok = false;
+            }
+        }
+        return !ok || addRow(p, new Row(line, raw, values));
+    }
+
+    // ------------------------------------------------------------------ writing
+
+    static String writeCsv(Spec spec, Map<String, String> header, List<String[]> rows) {
+        StringBuilder text = new StringBuilder();
+        text.append("# ").append(spec.format()).append(' ').append(spec.version()).append('\n');
+        for (Map.Entry<String, String> entry : header.entrySet()) {
+            text.append("# ").append(entry.getKey()).append(": ").append(entry.getValue()).append('\n');
+        }
+        List<String[]> all = new ArrayList<>();
+        all.add(spec.columns().toArray(new String[0]));
+        all.addAll(rows);
+        StringWriter out = new StringWriter();
+        CSV.writer(CsvSchema.emptySchema().withLineSeparator("\n")).writeValues(out).writeAll(all).close();
+        return text.append(out).toString();
+    }
+
+    static String writeJson(Spec spec, Map<String, String> header, List<ObjectNode> rows) {
+        ObjectNode root = JSON.createObjectNode();
+        root.put("format", spec.format());
+        root.put("formatVersion", spec.version());
+        header.forEach((key, value) -> root.put(spec.jsonKey(key), value));
+        ArrayNode array = root.putArray(spec.arrayKey());
+        rows.forEach(array::add);
+        return JSON.writerWithDefaultPrettyPrinter().writeValueAsString(root) + "\n";
+    }
+
+    static ObjectNode newRow() {
+        return JSON.createObjectNode();
+    }
+
+    static void put(ObjectNode row, String key, String value) {
+        if (value != null) {
+            row.put(key, value);
+        }
+    }
+
+    static void put(ObjectNode row, String key, OptionalDouble value) {
+        if (value.isPresent()) {
+            row.put(key, value.getAsDouble());
+        }
+    }
+
+    static String csv(OptionalDouble value) {
+        return value.isPresent() ? Double.toString(value.getAsDouble()) : "";
+    }
+
+    static String csv(String value) {
+        return value == null ? "" : value;
+    }
+
+    /** The header keys every format shares, from a data set's info. */
+    static Map<String, String> header(DataSetInfo info, boolean withKind) {
+        Map<String, String> header = new LinkedHashMap<>();
+        header.put("id", info.id());
+        header.put("title", info.title());
+        header.put("source", info.provenance().detail());
+        header.put("provenance", info.provenance().kind().id());
+        header.put("version", info.version());
+        if (withKind) {
+            header.put("kind", info.kind().id());
+        }
+        return header;
+    }
+
+    /** A data set info from a sound header; a placeholder when the header has problems. */
+    static DataSetInfo info(Parsed p, DataKind kind, Provenance.Kind provenance, boolean sound) {
+        if (!sound) {
+            return new DataSetInfo("invalid", kind, "-", "-", Provenance.published("-"), List.of());
+        }
+        return new DataSetInfo(p.header.get("id"), kind, p.header.get("title"), p.header.get("version"),
+                new Provenance(provenance, p.header.get("source")), List.of());
+    }
+}
