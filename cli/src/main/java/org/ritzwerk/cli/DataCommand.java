@@ -10,6 +10,7 @@ import org.ritzwerk.data.Isotope;
 import org.ritzwerk.data.IsotopeTable;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.hydrogenic.Notation;
 import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.LevelListFiles;
 import org.ritzwerk.refdata.LineListFiles;
@@ -155,7 +156,7 @@ final class DataCommand implements Callable<Integer> {
                                 "%.7f")));
                 for (int i = 0; i < levels.size(); i++) {
                     table.add(levels.species(i).notation(), levels.label(i),
-                            levels.twoJ(i) < 0 ? null : LevelsCommand.half(levels.twoJ(i)), levels.energy(i));
+                            levels.twoJ(i) < 0 ? null : Notation.half(levels.twoJ(i)), levels.energy(i));
                 }
                 return table;
             }
@@ -165,7 +166,7 @@ final class DataCommand implements Callable<Integer> {
                     Table.Column.text("moment_nm", "moment nm"), Table.Column.text("radius_fm", "radius fm"),
                     Table.Column.text("source", "source")));
             for (Isotope isotope : isotopes.isotopes()) {
-                table.add(isotope.z(), isotope.massNumber(), isotope.atomicMass(), LevelsCommand.half(isotope.twiceSpin()),
+                table.add(isotope.z(), isotope.massNumber(), isotope.atomicMass(), Notation.half(isotope.twiceSpin()),
                         isotope.magneticMoment().isPresent() ? (Object) isotope.magneticMoment().getAsDouble() : null,
                         isotope.chargeRadiusFm().isPresent() ? (Object) isotope.chargeRadiusFm().getAsDouble() : null,
                         isotope.source());

@@ -6,6 +6,7 @@ import java.util.concurrent.Callable;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.LevelTable;
+import org.ritzwerk.engine.hydrogenic.Notation;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -75,7 +76,7 @@ final class LevelsCommand implements Callable<Integer> {
             HydrogenLikeLines lines = HydrogenLikeLines.of(ion.model());
             for (int i = 0; i < levels.size(); i++) {
                 Object[] row = {ion.species().notation(), levels.label(i), levels.n(i), levels.l(i),
-                    half(levels.twoJ(i)), levels.twoF(i) < 0 ? null : half(levels.twoF(i)), levels.statisticalWeight(i),
+                    Notation.half(levels.twoJ(i)), levels.twoF(i) < 0 ? null : Notation.half(levels.twoF(i)), levels.statisticalWeight(i),
                     (levels.energy(i) - ground) / hcPerCm, ion.model().tier().id(), null};
                 if (lifetimes) {
                     row[9] = lines.lifetime(levels.n(i), levels.l(i), levels.twoJ(i));
@@ -85,9 +86,5 @@ final class LevelsCommand implements Callable<Integer> {
         }
         table.write(spec.commandLine().getOut(), format);
         return 0;
-    }
-
-    static String half(int twice) {
-        return (twice & 1) == 0 ? Integer.toString(twice / 2) : twice + "/2";
     }
 }

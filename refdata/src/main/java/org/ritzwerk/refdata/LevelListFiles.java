@@ -13,6 +13,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.Provenance;
+import org.ritzwerk.engine.hydrogenic.Notation;
 import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
 import tools.jackson.databind.node.ObjectNode;
@@ -187,10 +188,7 @@ public final class LevelListFiles {
     }
 
     private static String j(int twoJ) {
-        if (twoJ < 0) {
-            return "";
-        }
-        return (twoJ & 1) == 0 ? Integer.toString(twoJ / 2) : twoJ + "/2";
+        return twoJ < 0 ? "" : Notation.half(twoJ);
     }
 
     private static Map<String, String> headerOf(LevelList table) {

@@ -141,7 +141,7 @@ public final class HydrogenLikeModel {
         if (twoF < Math.abs(twoJ - twoI) || twoF > twoJ + twoI || ((twoF - twoJ - twoI) & 1) != 0) {
             throw new IllegalArgumentException(String.format(Locale.ROOT,
                     "F = %s is impossible for j = %s and nuclear spin I = %s: F runs from |j - I| to j + I",
-                    half(twoF), half(twoJ), half(twoI)));
+                    Notation.half(twoF), Notation.half(twoJ), Notation.half(twoI)));
         }
         return centroid(n, l, twoJ) + hyperfine(n, l, twoJ, twoF);
     }
@@ -198,13 +198,10 @@ public final class HydrogenLikeModel {
         RadialIntegrals.checkState(n, l, "");
         if (twoJ != 2 * l + 1 && twoJ != 2 * l - 1 || twoJ < 1) {
             throw new IllegalArgumentException(String.format(Locale.ROOT,
-                    "j = %s is impossible for l = %d: j must be l +- 1/2 and positive", half(twoJ), l));
+                    "j = %s is impossible for l = %d: j must be l +- 1/2 and positive", Notation.half(twoJ), l));
         }
     }
 
-    static String half(int twice) {
-        return (twice & 1) == 0 ? Integer.toString(twice / 2) : twice + "/2";
-    }
 
     private double centroid(int n, int l, int twoJ) {
         int z = nucleus.z();

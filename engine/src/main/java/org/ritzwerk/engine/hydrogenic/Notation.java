@@ -36,12 +36,20 @@ public final class Notation {
         StringBuilder label = new StringBuilder().append(n).append(orbital(l));
         if (twoJ > 0) {
             String term = orbital(l).toUpperCase(java.util.Locale.ROOT);
-            label.append(" 2").append(term).append(HydrogenLikeModel.half(twoJ));
+            label.append(" 2").append(term).append(half(twoJ));
         }
         if (twoF >= 0) {
-            label.append(" F=").append(HydrogenLikeModel.half(twoF));
+            label.append(" F=").append(half(twoF));
         }
         return label.toString();
+    }
+
+    /**
+     * @param twice twice an angular momentum, not negative
+     * @return the angular momentum as text: {@code "2"}, {@code "3/2"}
+     */
+    public static String half(int twice) {
+        return (twice & 1) == 0 ? Integer.toString(twice / 2) : twice + "/2";
     }
 
     /**
