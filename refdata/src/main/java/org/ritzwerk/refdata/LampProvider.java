@@ -4,7 +4,10 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
+import java.util.Collections;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
@@ -33,20 +36,27 @@ public final class LampProvider implements ReferenceDataProvider {
         return Origin.BUILT_IN;
     }
 
-    private volatile List<DataSetInfo> infos;
+    /** The sets, read from the jar on first use (listing needs their headers anyway). */
+    private volatile Map<String, LineList> sets;
 
     @Override
     public List<DataSetInfo> dataSets() {
-        List<DataSetInfo> listed = infos;
-        if (listed == null) {
-            List<DataSetInfo> read = new ArrayList<>();
+        List<DataSetInfo> infos = new ArrayList<>();
+        sets().values().forEach(set -> infos.add(set.info()));
+        return infos;
+    }
+
+    private Map<String, LineList> sets() {
+        Map<String, LineList> read = sets;
+        if (read == null) {
+            Map<String, LineList> all = new LinkedHashMap<>();
             for (String id : FILES) {
-                read.add(read(id).info());
+                all.put(id, read(id));
             }
-            listed = List.copyOf(read);
-            infos = listed;
+            read = Collections.unmodifiableMap(all);
+            sets = read;
         }
-        return listed;
+        return read;
     }
 
     @Override
@@ -55,7 +65,7 @@ public final class LampProvider implements ReferenceDataProvider {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
                     "no lamp set '" + dataSetId + "'; known: " + String.join(", ", FILES));
         }
-        return read(dataSetId);
+        return sets().get(dataSetId);
     }
 
     private static LineList read(String id) {
