@@ -1,7 +1,7 @@
 package org.ritzwerk.data;
 
-/** A loaded reference data set: lines, levels or isotopes, with what it is. */
-public sealed interface DataSet permits LineList, LevelList, IsotopeTable {
+/** A loaded reference data set: lines, levels, isotopes or quantum defects, with what it is. */
+public sealed interface DataSet permits LineList, LevelList, IsotopeTable, QuantumDefects {
 
     /** @return the id, kind, title, version, provenance and coverage */
     DataSetInfo info();

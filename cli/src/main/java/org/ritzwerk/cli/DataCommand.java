@@ -10,6 +10,7 @@ import org.ritzwerk.data.Isotope;
 import org.ritzwerk.data.IsotopeTable;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.hydrogenic.Notation;
 import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.LevelListFiles;
@@ -157,6 +158,16 @@ final class DataCommand implements Callable<Integer> {
                 for (int i = 0; i < levels.size(); i++) {
                     table.add(levels.species(i).notation(), levels.label(i),
                             levels.twoJ(i) < 0 ? null : Notation.half(levels.twoJ(i)), levels.energy(i));
+                }
+                return table;
+            }
+            if (set instanceof QuantumDefects) {
+                QuantumDefects defects = (QuantumDefects) set;
+                Table table = new Table(List.of(Table.Column.text("l", "l"), Table.Column.text("j", "j"),
+                        Table.Column.text("coefficients", "d0, d2, d4, ..."), Table.Column.text("valid_from_n", "from n")));
+                for (QuantumDefects.Series series : defects.series()) {
+                    table.add(series.l(), Notation.half(series.twoJ()), series.coefficients().toString(),
+                            series.validFromN());
                 }
                 return table;
             }
