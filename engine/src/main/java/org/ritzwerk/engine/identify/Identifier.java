@@ -1,0 +1,552 @@
+package org.ritzwerk.engine.identify;
+
+import java.util.Arrays;
+import java.util.Locale;
+import java.util.Objects;
+
+/**
+ * Matches measured peaks to catalogued lines.
+ *
+ * <p><b>Candidates.</b> A line is a candidate for a peak when their vacuum wavelengths differ by
+ * at most the {@link Tolerance}'s half-width. Peaks and lines are walked together in wavelength
+ * order (a sorted merge), so finding every candidate costs O(N + M + candidates) after sorting
+ * the peaks (skipped when they come sorted).
+ *
+ * <p><b>Score.</b> Each candidate gets the cost
+ * {@code c = (r / s)^2 / 2 - w ln(S)}: the negative log-likelihood of the residual r against the
+ * scoring uncertainty s (Gaussian), plus the negative log of the line's relative expected strength
+ * S in (0, 1] weighted by w (default 1; 0 ignores strengths). Lower is better.
+ *
+ * <p><b>Assignment.</b> Each peak explains at most one line and each line at most one peak. Peaks
+ * that share candidate lines form a component; every component is solved exactly as a
+ * minimum-cost assignment that first maximises the number of matched peaks (Hungarian method,
+ * H. W. Kuhn, Naval Res. Logist. Q. 2, 83 (1955), with potentials), except that a component of
+ * more than {@link #MAX_EXACT_COMPONENT} peaks falls back to a greedy choice by cost, counted in
+ * {@link Identification#greedyComponents()}.
+ *
+ * <p><b>Ambiguity.</b> A matched peak is ambiguous when another candidate's cost is within the
+ * ambiguity margin (default 2, a likelihood ratio of e^2) of the chosen one and the two lines
+ * are closer than two scoring uncertainties: the data cannot separate them.
+ *
+ * <p>Immutable and thread-safe; no object is made per peak or candidate.
+ */
+public final class Identifier {
+
+    /** Components with more peaks than this are assigned greedily. */
+    public static final int MAX_EXACT_COMPONENT = 300;
+
+    /** The cost of leaving a peak unmatched: above any real cost (at most a few hundred), small
+     *  enough that the potentials keep their precision. */
+    private static final double UNMATCHED = 1e6;
+
+    private final Tolerance tolerance;
+    private final double strengthWeight;
+    private final double ambiguityMargin;
+    private final double strongLine;
+
+    private Identifier(Tolerance tolerance, double strengthWeight, double ambiguityMargin, double strongLine) {
+        this.tolerance = Objects.requireNonNull(tolerance, "tolerance");
+        this.strengthWeight = strengthWeight;
+        this.ambiguityMargin = ambiguityMargin;
+        this.strongLine = strongLine;
+    }
+
+    /**
+     * @param tolerance how far a peak may lie from its line
+     * @return an identifier with strength weight 1, ambiguity margin 2 and strong lines those
+     *         with relative strength at least 0.3
+     */
+    public static Identifier of(Tolerance tolerance) {
+        return new Identifier(tolerance, 1, 2, 0.3);
+    }
+
+    /** @param weight w in the cost, finite and >= 0 @return a copy with that weight */
+    public Identifier withStrengthWeight(double weight) {
+        check("strength weight", weight);
+        return new Identifier(tolerance, weight, ambiguityMargin, strongLine);
+    }
+
+    /** @param margin cost difference below which two close candidates are ambiguous, >= 0 @return a copy */
+    public Identifier withAmbiguityMargin(double margin) {
+        check("ambiguity margin", margin);
+        return new Identifier(tolerance, strengthWeight, margin, strongLine);
+    }
+
+    /** @param threshold relative strength from which a line counts as strong, in (0, 1] @return a copy */
+    public Identifier withStrongLineThreshold(double threshold) {
+        if (!(threshold > 0 && threshold <= 1)) {
+            throw new IllegalArgumentException("strong-line threshold must be in (0, 1], got " + threshold);
+        }
+        return new Identifier(tolerance, strengthWeight, ambiguityMargin, threshold);
+    }
+
+    private static void check(String what, double value) {
+        if (!(value >= 0) || Double.isInfinite(value)) {
+            throw new IllegalArgumentException(what + " must be finite and >= 0, got " + value);
+        }
+    }
+
+    /** @return the tolerance */
+    public Tolerance tolerance() {
+        return tolerance;
+    }
+
+    /**
+     * @param peaks the measured peaks
+     * @param lines the candidate lines
+     * @return the identification of every peak, in the peaks' order
+     * @throws IllegalArgumentException when a k-sigma tolerance meets peaks and lines that both
+     *                                  lack uncertainties (the window would be empty)
+     */
+    public Identification identify(PeakList peaks, LineCatalog lines) {
+        int n = peaks.size();
+        int m = lines.size();
+        double[] pw = peaks.wavelengths();
+        double[] ps = peaks.sigmas();
+        double[] lw = lines.wavelengths();
+        if (tolerance.kind() == Tolerance.Kind.K_SIGMA && lines.maxSigma() == 0) {
+            boolean any = false;
+            for (double s : ps) {
+                any |= s > 0;
+            }
+            if (!any) {
+                throw new IllegalArgumentException("a k-sigma tolerance needs uncertainties, but neither the peaks nor "
+                        + "the lines have any; give them, or use an absolute or relative tolerance");
+            }
+        }
+        int[] order = sortedOrder(pw);
+
+        // One pass in wavelength order: the candidates of each peak come from a sorted merge;
+        // peaks that share candidate lines gather in a small component buffer, which is solved
+        // and written out as soon as the next peak cannot share a line with it.
+        Results results = new Results(n, m);
+        Component component = new Component();
+        double[] penalty = lines.negativeLogStrengths();
+        boolean exactReach = tolerance.kind() != Tolerance.Kind.K_SIGMA;
+        int lo = 0;
+        double w = strengthWeight;
+        for (int k = 0; k < n; k++) {
+            int i = order == null ? k : order[k];
+            double x = pw[i];
+            double sigma = ps[i];
+            double reach = tolerance.halfWidth(x, sigma, lines.maxSigma());
+            // For absolute and relative tolerances the window and scoring width depend on the
+            // peak alone, so the inner loop needs no per-line work beyond the cost.
+            double inverse = exactReach ? 1 / tolerance.scoringSigma(x, sigma, 0) : 0;
+            while (lo < m && lw[lo] < x - reach) {
+                lo++;
+            }
+            int firstLine = -1;
+            int before = component.size;
+            for (int j = lo; j < m && lw[j] <= x + reach; j++) {
+                double r = x - lw[j];
+                double z;
+                if (exactReach) {
+                    z = r * inverse;
+                } else {
+                    double lineSigma = lines.sigma(j);
+                    if (Math.abs(r) > tolerance.halfWidth(x, sigma, lineSigma)) {
+                        continue;
+                    }
+                    double s = tolerance.scoringSigma(x, sigma, lineSigma);
+                    z = s > 0 ? r / s : 0;
+                }
+                if (firstLine < 0) {
+                    firstLine = j;
+                    if (component.peaks > 0 && j > component.maxLine) {
+                        finish(component, results, pw, ps, lines, order);
+                        before = 0;
+                    }
+                }
+                component.addCandidate(j, 0.5 * z * z + w * penalty[j]);
+            }
+            if (firstLine >= 0) {
+                component.closePeak(k, before);
+            }
+            // A peak without candidates leaves the open component open: the peaks on either
+            // side of it may still share a line; its result is the default, unexplained.
+        }
+        if (component.peaks > 0) {
+            finish(component, results, pw, ps, lines, order);
+        }
+        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used, results.greedy,
+                strongLine, tolerance, strengthWeight);
+    }
+
+    /** Solves the buffered component, writes its peaks' results and empties the buffer. */
+    private void finish(Component c, Results results, double[] pw, double[] ps, LineCatalog lines, int[] order) {
+        if (c.peaks == 1 && c.size == 1) {
+            // The common case: one peak, one candidate, nothing to weigh.
+            int k = c.peakOrder[0];
+            int i = order == null ? k : order[k];
+            int j = c.line[0];
+            results.used[j] = true;
+            results.linePlusOne[i] = j + 1;
+            results.status[i] = Identification.MATCHED;
+            c.clear();
+            return;
+        }
+        if (c.eachPeakBestDistinct()) {
+            // Every peak matched to its own cheapest line: the most matches at the least cost.
+        } else if (c.peaks <= MAX_EXACT_COMPONENT && tolerance.kind() == Tolerance.Kind.ABSOLUTE) {
+            c.solveNonCrossing();
+        } else if (c.peaks <= MAX_EXACT_COMPONENT) {
+            c.solveExactly();
+        } else {
+            results.greedy++;
+            c.solveGreedily();
+        }
+        double[] lw = lines.wavelengths();
+        for (int p = 0; p < c.peaks; p++) {
+            int k = c.peakOrder[p];
+            int i = order == null ? k : order[k];
+            int j = c.chosen[p];
+            if (j < 0) {
+                results.unexplained(i);
+                continue;
+            }
+            results.used[j] = true;
+            results.linePlusOne[i] = j + 1;
+            double chosenCost = Double.POSITIVE_INFINITY;
+            for (int q = c.start[p]; q < c.start[p + 1]; q++) {
+                if (c.line[q] == j) {
+                    chosenCost = c.cost[q];
+                }
+            }
+            double s = tolerance.scoringSigma(pw[i], ps[i], lines.sigma(j));
+            byte status = Identification.MATCHED;
+            for (int q = c.start[p]; q < c.start[p + 1]; q++) {
+                int other = c.line[q];
+                if (other != j && c.cost[q] - chosenCost < ambiguityMargin && Math.abs(lw[other] - lw[j]) < 2 * s) {
+                    status = Identification.AMBIGUOUS;
+                }
+            }
+            results.status[i] = status;
+        }
+        c.clear();
+    }
+
+    /**
+     * The output columns, in the peaks' order: five bytes a peak, and nothing written for an
+     * unexplained peak (status 0, line stored plus one so that 0 means none). Residuals, costs
+     * and runners-up are derived on request.
+     */
+    private static final class Results {
+        final byte[] status;
+        final int[] linePlusOne;
+        final boolean[] used;
+        int greedy;
+
+        Results(int n, int m) {
+            status = new byte[n];
+            linePlusOne = new int[n];
+            used = new boolean[m];
+        }
+
+        void unexplained(int i) {
+            // The defaults already say so.
+        }
+    }
+
+    /**
+     * The peaks of one component and their candidates, reused from one component to the next:
+     * candidates of the p-th peak are {@code line/cost[start[p] .. start[p+1])}.
+     */
+    private static final class Component {
+        int[] peakOrder = new int[16];
+        int[] start = new int[17];
+        int[] chosen = new int[16];
+        int[] line = new int[64];
+        double[] cost = new double[64];
+        int peaks;
+        int size;
+        int maxLine = -1;
+        private final Assignment solver = new Assignment();
+
+        void addCandidate(int j, double c) {
+            if (size == line.length) {
+                line = Arrays.copyOf(line, 2 * size);
+                cost = Arrays.copyOf(cost, 2 * size);
+            }
+            line[size] = j;
+            cost[size] = c;
+            size++;
+            maxLine = Math.max(maxLine, j);
+        }
+
+        /** Ends the candidates of the peak at sorted position k, whose first candidate is at {@code from}. */
+        void closePeak(int k, int from) {
+            if (peaks + 1 >= peakOrder.length) {
+                peakOrder = Arrays.copyOf(peakOrder, 2 * peakOrder.length);
+                start = Arrays.copyOf(start, 2 * start.length);
+                chosen = Arrays.copyOf(chosen, 2 * chosen.length);
+            }
+            peakOrder[peaks] = k;
+            start[peaks] = from;
+            peaks++;
+            start[peaks] = size;
+        }
+
+        void clear() {
+            peaks = 0;
+            size = 0;
+            maxLine = -1;
+        }
+
+        /**
+         * Gives each peak its cheapest candidate.
+         *
+         * @return whether those lines are all different, in which case this is the optimal assignment
+         */
+        boolean eachPeakBestDistinct() {
+            for (int p = 0; p < peaks; p++) {
+                int best = -1;
+                double bestCost = Double.POSITIVE_INFINITY;
+                for (int q = start[p]; q < start[p + 1]; q++) {
+                    if (cost[q] < bestCost) {
+                        bestCost = cost[q];
+                        best = line[q];
+                    }
+                }
+                chosen[p] = best;
+            }
+            // Candidates come in line order, so a repeated best line shows up among neighbours
+            // only when it is shared; compare every pair for the small components that remain.
+            for (int p = 0; p < peaks; p++) {
+                for (int r = p + 1; r < peaks; r++) {
+                    if (chosen[p] == chosen[r]) {
+                        return false;
+                    }
+                }
+            }
+            return true;
+        }
+
+        void solveExactly() {
+            solver.solve(this);
+        }
+
+        private double[] table = new double[0];
+
+        /**
+         * The exact assignment when the cost is a convex function of the distance plus a
+         * per-line term and every peak's candidates are a run of lines that moves up with the
+         * peaks (an absolute tolerance): such costs are Monge, so some optimal assignment never
+         * crosses, and dynamic programming over peaks and lines in order finds it in
+         * O(peaks x lines) (A. J. Hoffman, Proc. Symp. Pure Math. 7, 317 (1963); common practice).
+         */
+        void solveNonCrossing() {
+            int lineMin = Integer.MAX_VALUE;
+            for (int q = 0; q < size; q++) {
+                lineMin = Math.min(lineMin, line[q]);
+            }
+            int lines = maxLine - lineMin + 1;
+            int width = lines + 1;
+            if (table.length < (peaks + 1) * width) {
+                table = new double[Math.max((peaks + 1) * width, 2 * table.length)];
+            }
+            // table[p][l]: least cost of the first p peaks and first l lines, a match costing
+            // (its cost - UNMATCHED) so that more matches always win.
+            for (int l = 0; l <= lines; l++) {
+                table[l] = 0;
+            }
+            for (int p = 1; p <= peaks; p++) {
+                int row = p * width;
+                table[row] = 0;
+                int q = start[p - 1];
+                int qEnd = start[p];
+                for (int l = 1; l <= lines; l++) {
+                    double best = Math.min(table[row - width + l], table[row + l - 1]);
+                    while (q < qEnd && line[q] - lineMin < l - 1) {
+                        q++;
+                    }
+                    if (q < qEnd && line[q] - lineMin == l - 1) {
+                        best = Math.min(best, table[row - width + l - 1] + cost[q] - UNMATCHED);
+                    }
+                    table[row + l] = best;
+                }
+            }
+            // Walk back to read the matches.
+            int p = peaks;
+            int l = lines;
+            Arrays.fill(chosen, 0, peaks, -1);
+            while (p > 0 && l > 0) {
+                int row = p * width;
+                double here = table[row + l];
+                if (here == table[row - width + l]) {
+                    p--;
+                } else if (here == table[row + l - 1]) {
+                    l--;
+                } else {
+                    chosen[p - 1] = lineMin + l - 1;
+                    p--;
+                    l--;
+                }
+            }
+        }
+
+        void solveGreedily() {
+            Integer[] byCost = new Integer[size];
+            for (int q = 0; q < size; q++) {
+                byCost[q] = q;
+            }
+            Arrays.sort(byCost, (a, b) -> Double.compare(cost[a], cost[b]));
+            Arrays.fill(chosen, 0, peaks, -1);
+            java.util.Set<Integer> taken = new java.util.HashSet<>();
+            for (int q : byCost) {
+                int p = peakOf(q);
+                if (chosen[p] < 0 && taken.add(line[q])) {
+                    chosen[p] = line[q];
+                }
+            }
+        }
+
+        private int peakOf(int candidate) {
+            int lo = 0;
+            int hi = peaks - 1;
+            while (lo < hi) {
+                int mid = (lo + hi + 1) >>> 1;
+                if (start[mid] <= candidate) {
+                    lo = mid;
+                } else {
+                    hi = mid - 1;
+                }
+            }
+            return lo;
+        }
+    }
+
+    /** @return the permutation sorting the positions, or null when already sorted */
+    private static int[] sortedOrder(double[] positions) {
+        boolean sorted = true;
+        for (int i = 1; i < positions.length && sorted; i++) {
+            sorted = positions[i] >= positions[i - 1];
+        }
+        if (sorted) {
+            return null;
+        }
+        Integer[] boxed = new Integer[positions.length];
+        for (int i = 0; i < boxed.length; i++) {
+            boxed[i] = i;
+        }
+        Arrays.sort(boxed, (a, b) -> Double.compare(positions[a], positions[b]));
+        int[] order = new int[boxed.length];
+        for (int i = 0; i < order.length; i++) {
+            order[i] = boxed[i];
+        }
+        return order;
+    }
+
+    @Override
+    public String toString() {
+        return String.format(Locale.ROOT, "Identifier[%s %s, w=%s, margin=%s]", tolerance.kind(), tolerance.value(),
+                strengthWeight, ambiguityMargin);
+    }
+
+    /**
+     * Minimum-cost assignment of a component's peaks (rows) to its lines or to "unmatched"
+     * (one dummy column per peak at a cost larger than any real one), by the Hungarian method
+     * with potentials, O(rows^2 columns). Reuses its arrays between components.
+     */
+    static final class Assignment {
+        private double[] matrix = new double[0];
+
+        void solve(Component c) {
+            int rows = c.peaks;
+            int lineMin = Integer.MAX_VALUE;
+            int lineMax = Integer.MIN_VALUE;
+            for (int q = 0; q < c.size; q++) {
+                lineMin = Math.min(lineMin, c.line[q]);
+                lineMax = Math.max(lineMax, c.line[q]);
+            }
+            int lines = lineMax - lineMin + 1;
+            int cols = lines + rows;
+            if (matrix.length < rows * cols) {
+                matrix = new double[rows * cols];
+            }
+            Arrays.fill(matrix, 0, rows * cols, UNMATCHED * 100);
+            for (int r = 0; r < rows; r++) {
+                for (int q = c.start[r]; q < c.start[r + 1]; q++) {
+                    matrix[r * cols + c.line[q] - lineMin] = c.cost[q];
+                }
+                matrix[r * cols + lines + r] = UNMATCHED;
+            }
+            int[] rowOfColumn = hungarian(rows, cols);
+            Arrays.fill(c.chosen, 0, rows, -1);
+            for (int col = 0; col < lines; col++) {
+                int r = rowOfColumn[col];
+                if (r >= 0 && matrix[r * cols + col] < UNMATCHED) {
+                    c.chosen[r] = col + lineMin;
+                }
+            }
+        }
+
+        private double[] u = new double[0];
+        private double[] v = new double[0];
+        private int[] p = new int[0];
+        private int[] way = new int[0];
+        private double[] minv = new double[0];
+        private boolean[] usedCol = new boolean[0];
+        private int[] rowOfColumn = new int[0];
+
+        /** @return for each column the row assigned to it, or -1 (rows &lt;= cols); reused between calls */
+        private int[] hungarian(int rows, int cols) {
+            if (v.length < cols + 1 || u.length < rows + 1) {
+                u = new double[Math.max(rows + 1, 2 * u.length)];
+                v = new double[Math.max(cols + 1, 2 * v.length)];
+                p = new int[v.length];
+                way = new int[v.length];
+                minv = new double[v.length];
+                usedCol = new boolean[v.length];
+                rowOfColumn = new int[v.length];
+            }
+            Arrays.fill(u, 0, rows + 1, 0);
+            Arrays.fill(v, 0, cols + 1, 0);
+            Arrays.fill(p, 0, cols + 1, 0);
+            Arrays.fill(way, 0, cols + 1, 0);
+            for (int i = 1; i <= rows; i++) {
+                p[0] = i;
+                int j0 = 0;
+                Arrays.fill(minv, 0, cols + 1, Double.POSITIVE_INFINITY);
+                Arrays.fill(usedCol, 0, cols + 1, false);
+                do {
+                    usedCol[j0] = true;
+                    int i0 = p[j0];
+                    double delta = Double.POSITIVE_INFINITY;
+                    int j1 = 0;
+                    for (int j = 1; j <= cols; j++) {
+                        if (!usedCol[j]) {
+                            double cur = matrix[(i0 - 1) * cols + (j - 1)] - u[i0] - v[j];
+                            if (cur < minv[j]) {
+                                minv[j] = cur;
+                                way[j] = j0;
+                            }
+                            if (minv[j] < delta) {
+                                delta = minv[j];
+                                j1 = j;
+                            }
+                        }
+                    }
+                    for (int j = 0; j <= cols; j++) {
+                        if (usedCol[j]) {
+                            u[p[j]] += delta;
+                            v[j] -= delta;
+                        } else {
+                            minv[j] -= delta;
+                        }
+                    }
+                    j0 = j1;
+                } while (p[j0] != 0);
+                do {
+                    int j1 = way[j0];
+                    p[j0] = p[j1];
+                    j0 = j1;
+                } while (j0 != 0);
+            }
+            for (int j = 1; j <= cols; j++) {
+                rowOfColumn[j - 1] = p[j] - 1;
+            }
+            return rowOfColumn;
+        }
+    }
+}

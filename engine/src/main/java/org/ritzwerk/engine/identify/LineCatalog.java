@@ -1,0 +1,244 @@
+package org.ritzwerk.engine.identify;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Collections;
+import java.util.List;
+import java.util.Objects;
+import org.ritzwerk.atom.Species;
+
+/**
+ * Candidate lines in columns, sorted by vacuum wavelength: position and standard uncertainty
+ * (metres), the species, a relative expected strength in (0, 1] (1 for the strongest line of its
+ * species, or for every line when no strengths are known), and a label. Immutable and
+ * thread-safe; one object per line only for the labels.
+ */
+public final class LineCatalog {
+
+    private final double[] wavelength;
+    private final double[] sigma;
+    private final double[] strength;
+    /** -ln(strength), computed once for the identifier's cost. */
+    private final double[] negativeLogStrength;
+    private final int[] species;
+    private final String[] label;
+    private final List<Species> speciesList;
+    private final double maxSigma;
+
+    private LineCatalog(double[] wavelength, double[] sigma, double[] strength, int[] species, String[] label,
+            List<Species> speciesList) {
+        this.wavelength = wavelength;
+        this.sigma = sigma;
+        this.strength = strength;
+        this.negativeLogStrength = new double[strength.length];
+        for (int j = 0; j < strength.length; j++) {
+            negativeLogStrength[j] = -Math.log(strength[j]);
+        }
+        this.species = species;
+        this.label = label;
+        this.speciesList = speciesList;
+        double max = 0;
+        for (double s : sigma) {
+            max = Math.max(max, s);
+        }
+        this.maxSigma = max;
+    }
+
+    /** @return a builder; lines may be added in any order */
+    public static Builder builder() {
+        return new Builder();
+    }
+
+    /** @return the number of lines */
+    public int size() {
+        return wavelength.length;
+    }
+
+    /** @param j line index @return vacuum wavelength in metres */
+    public double wavelength(int j) {
+        return wavelength[j];
+    }
+
+    /** @param j line index @return standard uncertainty in metres (0 when not known) */
+    public double sigma(int j) {
+        return sigma[j];
+    }
+
+    /** @param j line index @return relative expected strength in (0, 1] */
+    public double strength(int j) {
+        return strength[j];
+    }
+
+    /** @param j line index @return the species */
+    public Species species(int j) {
+        return speciesList.get(species[j]);
+    }
+
+    /** @param j line index @return index of the species in {@link #speciesList()} */
+    public int speciesIndex(int j) {
+        return species[j];
+    }
+
+    /** @param j line index @return the label given when the line was added */
+    public String label(int j) {
+        return label[j];
+    }
+
+    /** @return the distinct species, in the order first added */
+    public List<Species> speciesList() {
+        return speciesList;
+    }
+
+    /** @return the largest line uncertainty, metres */
+    double maxSigma() {
+        return maxSigma;
+    }
+
+    double[] wavelengths() {
+        return wavelength;
+    }
+
+    double[] negativeLogStrengths() {
+        return negativeLogStrength;
+    }
+
+    /**
+     * @param redshift z; every wavelength is multiplied by 1 + z (the Doppler shift of a source
+     *                 moving away at v = c z for |z| much less than 1)
+     * @return the catalog as observed from such a source
+     */
+    public LineCatalog shifted(double redshift) {
+        if (!(redshift > -1) || Double.isInfinite(redshift)) {
+            throw new IllegalArgumentException("redshift must be finite and above -1, got " + redshift);
+        }
+        double[] moved = new double[wavelength.length];
+        double[] movedSigma = new double[wavelength.length];
+        for (int j = 0; j < moved.length; j++) {
+            moved[j] = wavelength[j] * (1 + redshift);
+            movedSigma[j] = sigma[j] * (1 + redshift);
+        }
+        return new LineCatalog(moved, movedSigma, strength, species, label, speciesList);
+    }
+
+    /**
+     * @param metres added to every wavelength (a constant offset of the instrument's scale)
+     * @return the catalog as seen through that offset
+     */
+    public LineCatalog offset(double metres) {
+        if (!Double.isFinite(metres)) {
+            throw new IllegalArgumentException("offset must be finite, got " + metres);
+        }
+        double[] moved = new double[wavelength.length];
+        for (int j = 0; j < moved.length; j++) {
+            moved[j] = wavelength[j] + metres;
+            if (!(moved[j] > 0)) {
+                throw new IllegalArgumentException("offset " + metres + " m moves line " + j + " below zero");
+            }
+        }
+        return new LineCatalog(moved, sigma, strength, species, label, speciesList);
+    }
+
+    /** Collects lines; not thread-safe. */
+    public static final class Builder {
+        private final List<Species> speciesList = new ArrayList<>();
+        private double[] wavelength = new double[64];
+        private double[] sigma = new double[64];
+        private double[] strength = new double[64];
+        private int[] species = new int[64];
+        private String[] label = new String[64];
+        private int size;
+
+        private Builder() {
+        }
+
+        /**
+         * @param s          species
+         * @param vacuumMetres vacuum wavelength in metres; finite, positive
+         * @param sigmaMetres  standard uncertainty in metres, 0 when not known; finite, not negative
+         * @param expected   expected intensity in any relative unit (e.g. g A), NaN or 0 when not
+         *                   known; normalised per species so the strongest is 1
+         * @param name       a label such as {@code "3d 2D5/2 - 2p 2P3/2"}, or null
+         * @return this builder
+         */
+        public Builder add(Species s, double vacuumMetres, double sigmaMetres, double expected, String name) {
+            Objects.requireNonNull(s, "species");
+            if (!(vacuumMetres > 0) || Double.isInfinite(vacuumMetres)) {
+                throw new IllegalArgumentException("line " + size + ": wavelength must be finite and positive, got "
+                        + vacuumMetres + " m");
+            }
+            if (!(sigmaMetres >= 0) || Double.isInfinite(sigmaMetres)) {
+                throw new IllegalArgumentException("line " + size + ": uncertainty must be finite and >= 0, got "
+                        + sigmaMetres + " m");
+            }
+            if (!Double.isNaN(expected) && (!(expected >= 0) || Double.isInfinite(expected))) {
+                throw new IllegalArgumentException("line " + size + ": expected intensity must be finite and >= 0, got "
+                        + expected);
+            }
+            if (size == wavelength.length) {
+                int capacity = 2 * size;
+                wavelength = Arrays.copyOf(wavelength, capacity);
+                sigma = Arrays.copyOf(sigma, capacity);
+                strength = Arrays.copyOf(strength, capacity);
+                species = Arrays.copyOf(species, capacity);
+                label = Arrays.copyOf(label, capacity);
+            }
+            int index = speciesList.indexOf(s);
+            if (index < 0) {
+                index = speciesList.size();
+                speciesList.add(s);
+            }
+            wavelength[size] = vacuumMetres;
+            sigma[size] = sigmaMetres;
+            strength[size] = expected;
+            species[size] = index;
+            label[size] = name;
+            size++;
+            return this;
+        }
+
+        /** @return the catalog, sorted by wavelength, strengths normalised per species */
+        public LineCatalog build() {
+            if (size == 0) {
+                throw new IllegalArgumentException("a line catalog needs at least one line");
+            }
+            double[] max = new double[speciesList.size()];
+            for (int j = 0; j < size; j++) {
+                if (strength[j] > 0) {
+                    max[species[j]] = Math.max(max[species[j]], strength[j]);
+                }
+            }
+            Integer[] order = new Integer[size];
+            for (int j = 0; j < size; j++) {
+                order[j] = j;
+            }
+            Arrays.sort(order, (a, b) -> Double.compare(wavelength[a], wavelength[b]));
+            double[] w = new double[size];
+            double[] u = new double[size];
+            double[] st = new double[size];
+            int[] sp = new int[size];
+            String[] lb = new String[size];
+            for (int k = 0; k < size; k++) {
+                int j = order[k];
+                w[k] = wavelength[j];
+                u[k] = sigma[j];
+                double m = max[species[j]];
+                // Unknown or zero strengths count as 1 when the species has none; otherwise a
+                // line of unknown strength is given the weakest known share (it is not favoured).
+                st[k] = m == 0 ? 1 : strength[j] > 0 ? strength[j] / m : Math.max(1e-6, minPositive(species[j]) / m);
+                sp[k] = species[j];
+                lb[k] = label[j];
+            }
+            return new LineCatalog(w, u, st, sp, lb, Collections.unmodifiableList(new ArrayList<>(speciesList)));
+        }
+
+        private double minPositive(int s) {
+            double min = Double.POSITIVE_INFINITY;
+            for (int j = 0; j < size; j++) {
+                if (species[j] == s && strength[j] > 0) {
+                    min = Math.min(min, strength[j]);
+                }
+            }
+            return min;
+        }
+    }
+}

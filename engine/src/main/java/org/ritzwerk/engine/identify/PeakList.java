@@ -1,0 +1,118 @@
+package org.ritzwerk.engine.identify;
+
+import java.util.Arrays;
+import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Kind;
+import org.ritzwerk.quantity.Unit;
+
+/**
+ * Measured peaks in columns: vacuum wavelength and its standard uncertainty (metres) and an
+ * optional intensity, in the order given. Immutable and thread-safe.
+ */
+public final class PeakList {
+
+    private final double[] wavelength;
+    private final double[] sigma;
+    private final double[] intensity;
+
+    private PeakList(double[] wavelength, double[] sigma, double[] intensity) {
+        this.wavelength = wavelength;
+        this.sigma = sigma;
+        this.intensity = intensity;
+    }
+
+    /**
+     * @param positions   peak positions in {@code unit} (and {@code medium} for wavelengths)
+     * @param sigmas      their standard uncertainties in the same unit, or null when unknown
+     *                    (then 0; use an absolute or relative tolerance)
+     * @param intensities observed intensities (any relative unit), or null
+     * @param unit        the unit of the positions: wavelength, wavenumber, frequency or energy
+     * @param medium      the medium of wavelength positions; ignored for other units
+     * @return the peaks, converted to vacuum wavelength
+     * @throws IllegalArgumentException naming the first bad element (non-finite or non-positive
+     *                                  position, negative or non-finite uncertainty or intensity),
+     *                                  for mismatched lengths or an empty list
+     */
+    public static PeakList of(double[] positions, double[] sigmas, double[] intensities, Unit unit, Medium medium) {
+        int n = positions.length;
+        if (n == 0) {
+            throw new IllegalArgumentException("the peak list is empty");
+        }
+        if (sigmas != null && sigmas.length != n || intensities != null && intensities.length != n) {
+            throw new IllegalArgumentException("positions, uncertainties and intensities differ in length: " + n + ", "
+                    + (sigmas == null ? "-" : sigmas.length) + ", " + (intensities == null ? "-" : intensities.length));
+        }
+        if (unit.kind() == Kind.TEMPERATURE) {
+            throw new IllegalArgumentException("peak positions cannot be temperatures (" + unit.symbol() + ")");
+        }
+        double[] wavelength = new double[n];
+        SpectralArrays.convert(positions, unit, medium, Unit.METRE, Medium.vacuum(), wavelength);
+        double[] sigma = new double[n];
+        if (sigmas != null) {
+            for (int i = 0; i < n; i++) {
+                double u = sigmas[i];
+                if (!(u >= 0) || Double.isInfinite(u)) {
+                    throw new IllegalArgumentException("peak " + i + ": uncertainty must be finite and >= 0, got " + u);
+                }
+                // First order: the uncertainty scales with |d lambda / d x| at the peak.
+                double x = positions[i];
+                double dx = x * 1e-7;
+                double[] pair = {x - dx, x + dx};
+                double[] out = new double[2];
+                SpectralArrays.convert(pair, unit, medium, Unit.METRE, Medium.vacuum(), out);
+                sigma[i] = Math.abs(out[1] - out[0]) / (2 * dx) * u;
+            }
+        }
+        double[] intensity = new double[n];
+        if (intensities == null) {
+            Arrays.fill(intensity, Double.NaN);
+        } else {
+            for (int i = 0; i < n; i++) {
+                if (!(intensities[i] >= 0) || Double.isInfinite(intensities[i])) {
+                    throw new IllegalArgumentException("peak " + i + ": intensity must be finite and >= 0, got "
+                            + intensities[i]);
+                }
+                intensity[i] = intensities[i];
+            }
+        }
+        return new PeakList(wavelength, sigma, intensity);
+    }
+
+    /**
+     * @param vacuumMetres vacuum wavelengths in metres (copied)
+     * @param sigmaMetres  standard uncertainties in metres, or null
+     * @return the peaks
+     */
+    public static PeakList ofVacuumMetres(double[] vacuumMetres, double[] sigmaMetres) {
+        return of(vacuumMetres, sigmaMetres, null, Unit.METRE, Medium.vacuum());
+    }
+
+    /** @return the number of peaks */
+    public int size() {
+        return wavelength.length;
+    }
+
+    /** @param i peak index @return vacuum wavelength in metres */
+    public double wavelength(int i) {
+        return wavelength[i];
+    }
+
+    /** @param i peak index @return standard uncertainty in metres (0 when unknown) */
+    public double sigma(int i) {
+        return sigma[i];
+    }
+
+    /** @param i peak index @return intensity, NaN when not given */
+    public double intensity(int i) {
+        return intensity[i];
+    }
+
+    double[] wavelengths() {
+        return wavelength;
+    }
+
+    double[] sigmas() {
+        return sigma;
+    }
+}

@@ -1,0 +1,213 @@
+package org.ritzwerk.engine.identify;
+
+import java.util.Arrays;
+import org.ritzwerk.constants.PhysicalConstants;
+
+/**
+ * Finds the Doppler shift (or the constant wavelength offset) that explains the most lines, with
+ * its uncertainty, so the peaks can then be matched against the shifted catalog.
+ *
+ * <p>Method: every peak-line pair within the search range votes for the shift it implies
+ * (redshift {@code z = lambda_peak / lambda_line - 1}, or offset {@code lambda_peak - lambda_line});
+ * the densest window of votes, as wide as the tolerance, gives a first value (a Hough-style
+ * vote, common practice). It is then refined twice: match against the shifted catalog and take
+ * the inverse-variance weighted mean of the matched pairs' implied shifts (plain mean when the
+ * uncertainties are unknown); the uncertainty is that of the mean
+ * ({@code 1 / sqrt(sum w)}, or the standard deviation over sqrt(n)). A velocity is {@code v = c z}
+ * (first order in v/c). Stateless and thread-safe.
+ */
+public final class ShiftSearch {
+
+    /** The most votes collected; beyond it, peaks are sampled evenly. */
+    static final int MAX_VOTES = 4_000_000;
+
+    private ShiftSearch() {
+    }
+
+    /**
+     * A fitted shift.
+     *
+     * @param value       the redshift z (dimensionless) or the offset (metres)
+     * @param uncertainty its standard uncertainty, same unit
+     * @param matches     the number of matched peaks the refinement used
+     */
+    public record Fit(double value, double uncertainty, int matches) {
+
+        /** @return for a redshift, the radial velocity c z in m/s (away from the observer positive) */
+        public double velocity() {
+            return PhysicalConstants.C * value;
+        }
+
+        /** @return the velocity's standard uncertainty in m/s */
+        public double velocityUncertainty() {
+            return PhysicalConstants.C * uncertainty;
+        }
+    }
+
+    /**
+     * @param identifier the matcher, whose tolerance sets the vote window
+     * @param peaks      measured peaks
+     * @param lines      rest-frame lines
+     * @param maxSpeed   the largest |v| to search, m/s; positive, below c / 10
+     * @return the redshift with its uncertainty
+     * @throws IllegalArgumentException when no peak-line pair lies within the range
+     */
+    public static Fit redshift(Identifier identifier, PeakList peaks, LineCatalog lines, double maxSpeed) {
+        if (!(maxSpeed > 0) || maxSpeed >= PhysicalConstants.C / 10) {
+            throw new IllegalArgumentException("the speed range must be positive and below c/10, got " + maxSpeed + " m/s");
+        }
+        double zMax = maxSpeed / PhysicalConstants.C;
+        double width = relativeWidth(identifier.tolerance(), peaks, lines);
+        double z = densest(votes(peaks, lines, zMax, true), width);
+        Fit fit = null;
+        for (int round = 0; round < 2; round++) {
+            fit = refine(identifier, peaks, lines, z, true);
+            z = fit.value();
+        }
+        return fit;
+    }
+
+    /**
+     * @param identifier the matcher
+     * @param peaks      measured peaks
+     * @param lines      lines
+     * @param maxOffset  the largest |offset| to search, metres; positive
+     * @return the offset (peak minus line wavelength, metres) with its uncertainty
+     */
+    public static Fit offset(Identifier identifier, PeakList peaks, LineCatalog lines, double maxOffset) {
+        if (!(maxOffset > 0) || Double.isInfinite(maxOffset)) {
+            throw new IllegalArgumentException("the offset range must be finite and positive, got " + maxOffset + " m");
+        }
+        double mid = peaks.wavelength(peaks.size() / 2);
+        double width = relativeWidth(identifier.tolerance(), peaks, lines) * mid;
+        double offset = densest(votes(peaks, lines, maxOffset, false), width);
+        Fit fit = null;
+        for (int round = 0; round < 2; round++) {
+            fit = refine(identifier, peaks, lines, offset, false);
+            offset = fit.value();
+        }
+        return fit;
+    }
+
+    /** Every implied shift of a peak-line pair within range, sampling peaks when there are too many. */
+    private static double[] votes(PeakList peaks, LineCatalog lines, double range, boolean relative) {
+        double[] lw = lines.wavelengths();
+        int n = peaks.size();
+        double[] votes = new double[1024];
+        int size = 0;
+        int stride = 1;
+        for (int attempt = 0; attempt < 30; attempt++) {
+            size = 0;
+            boolean full = false;
+            for (int i = 0; i < n && !full; i += stride) {
+                double x = peaks.wavelength(i);
+                double lo = relative ? x / (1 + range) : x - range;
+                double hi = relative ? x / (1 - range) : x + range;
+                int j = lowerBound(lw, lo);
+                for (; j < lw.length && lw[j] <= hi; j++) {
+                    if (size == votes.length) {
+                        if (size >= MAX_VOTES) {
+                            full = true;
+                            break;
+                        }
+                        votes = Arrays.copyOf(votes, Math.min(2 * size, MAX_VOTES));
+                    }
+                    votes[size++] = relative ? x / lw[j] - 1 : x - lw[j];
+                }
+            }
+            if (!full) {
+                break;
+            }
+            stride *= 2;
+        }
+        if (size == 0) {
+            throw new IllegalArgumentException("no peak lies within the search range of any line");
+        }
+        return Arrays.copyOf(votes, size);
+    }
+
+    /** The centre (median) of the window of the given width holding the most votes. */
+    private static double densest(double[] votes, double width) {
+        Arrays.sort(votes);
+        int best = 0;
+        int bestStart = 0;
+        int end = 0;
+        for (int start = 0; start < votes.length; start++) {
+            while (end < votes.length && votes[end] - votes[start] <= width) {
+                end++;
+            }
+            if (end - start > best) {
+                best = end - start;
+                bestStart = start;
+            }
+        }
+        return votes[bestStart + best / 2];
+    }
+
+    private static Fit refine(Identifier identifier, PeakList peaks, LineCatalog lines, double shift, boolean relative) {
+        LineCatalog moved = relative ? lines.shifted(shift) : lines.offset(shift);
+        Identification matches = identifier.identify(peaks, moved);
+        double sumW = 0;
+        double sumWx = 0;
+        double sum = 0;
+        double sumSq = 0;
+        int count = 0;
+        boolean weighted = true;
+        for (int i = 0; i < peaks.size(); i++) {
+            int j = matches.line(i);
+            if (j < 0 || matches.status(i) != Identification.MATCHED) {
+                continue;
+            }
+            double x = peaks.wavelength(i);
+            double rest = lines.wavelength(j);
+            double implied = relative ? x / rest - 1 : x - rest;
+            double sigma = Math.hypot(peaks.sigma(i), lines.sigma(j));
+            double s = relative ? sigma / rest : sigma;
+            if (s > 0) {
+                sumW += 1 / (s * s);
+                sumWx += implied / (s * s);
+            } else {
+                weighted = false;
+            }
+            sum += implied;
+            sumSq += implied * implied;
+            count++;
+        }
+        if (count == 0) {
+            return new Fit(shift, Double.NaN, 0);
+        }
+        double mean = sum / count;
+        if (weighted && sumW > 0) {
+            return new Fit(sumWx / sumW, 1 / Math.sqrt(sumW), count);
+        }
+        double variance = count > 1 ? (sumSq - count * mean * mean) / (count - 1) : Double.NaN;
+        return new Fit(mean, Math.sqrt(Math.max(variance, 0) / count), count);
+    }
+
+    /** The vote window: the tolerance as a fraction of the wavelength, at the middle peak. */
+    private static double relativeWidth(Tolerance tolerance, PeakList peaks, LineCatalog lines) {
+        int mid = peaks.size() / 2;
+        double x = peaks.wavelength(mid);
+        double sigma = peaks.sigma(mid);
+        double width = tolerance.halfWidth(x, sigma > 0 ? sigma : 0, lines.maxSigma()) / x;
+        if (!(width > 0)) {
+            throw new IllegalArgumentException("the tolerance gives no window at " + x + " m; give uncertainties or "
+                    + "use an absolute or relative tolerance");
+        }
+        return width;
+    }
+
+    private static int lowerBound(double[] sorted, double key) {
+        int lo = 0;
+        int hi = sorted.length;
+        while (lo < hi) {
+            int mid = (lo + hi) >>> 1;
+            if (sorted[mid] < key) {
+                lo = mid + 1;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
+    }
+}

@@ -1,0 +1,87 @@
+package org.ritzwerk.engine.identify;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.quicktheories.QuickTheory.qt;
+import static org.quicktheories.generators.SourceDSL.arbitrary;
+import static org.quicktheories.generators.SourceDSL.doubles;
+import static org.quicktheories.generators.SourceDSL.lists;
+
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+
+/**
+ * The one-to-one assignment is optimal: on small random crowded scenes (up to 7 peaks and 7
+ * lines, QuickTheories, fixed seed) its number of matches and total cost equal those of an
+ * exhaustive search over every assignment, for each tolerance model (the absolute one is solved
+ * by the non-crossing dynamic programme, the others by the Hungarian method).
+ */
+class AssignmentOptimalityTest {
+
+    @Test
+    void matchesExhaustiveSearch() {
+        qt().withFixedSeed(77L).withExamples(400)
+                .forAll(lists().of(doubles().between(0, 10)).ofSizeBetween(1, 7),
+                        lists().of(doubles().between(0, 10)).ofSizeBetween(1, 7),
+                        lists().of(doubles().between(0.05, 1)).ofSizeBetween(7, 7),
+                        arbitrary().pick(List.of(Tolerance.absolute(1.5e-12), Tolerance.relative(3e-12 / 500e-9),
+                                Tolerance.kSigma(3))))
+                .checkAssert((peakOffsets, lineOffsets, strengths, tolerance) -> {
+                    LineCatalog.Builder builder = LineCatalog.builder();
+                    for (int j = 0; j < lineOffsets.size(); j++) {
+                        builder.add(Species.parse("H I"), 500e-9 + lineOffsets.get(j) * 1e-12, 0.3e-12,
+                                strengths.get(j), null);
+                    }
+                    LineCatalog lines = builder.build();
+                    double[] positions = new double[peakOffsets.size()];
+                    double[] sigmas = new double[peakOffsets.size()];
+                    for (int i = 0; i < positions.length; i++) {
+                        positions[i] = 500e-9 + peakOffsets.get(i) * 1e-12;
+                        sigmas[i] = 0.4e-12;
+                    }
+                    PeakList peaks = PeakList.ofVacuumMetres(positions, sigmas);
+                    Identification result = Identifier.of(tolerance).identify(peaks, lines);
+                    int matches = 0;
+                    double total = 0;
+                    boolean[] used = new boolean[lines.size()];
+                    for (int i = 0; i < peaks.size(); i++) {
+                        if (result.line(i) >= 0) {
+                            matches++;
+                            total += result.cost(i);
+                            assertEquals(false, used[result.line(i)], "one-to-one");
+                            used[result.line(i)] = true;
+                        }
+                    }
+                    double[] best = {0, Double.POSITIVE_INFINITY};
+                    search(0, peaks, lines, tolerance, new boolean[lines.size()], 0, 0, best);
+                    assertEquals(best[0], matches, "number of matches");
+                    assertEquals(best[1], total, 1e-9 * Math.max(1, best[1]), "total cost");
+                });
+    }
+
+    /** Every assignment of peaks i.. to unused lines or to nothing; best = {matches, cost}. */
+    private static void search(int i, PeakList peaks, LineCatalog lines, Tolerance tolerance, boolean[] used,
+            int matches, double cost, double[] best) {
+        if (i == peaks.size()) {
+            if (matches > best[0] || matches == best[0] && cost < best[1]) {
+                best[0] = matches;
+                best[1] = cost;
+            }
+            return;
+        }
+        search(i + 1, peaks, lines, tolerance, used, matches, cost, best);
+        double x = peaks.wavelength(i);
+        for (int j = 0; j < lines.size(); j++) {
+            double r = x - lines.wavelength(j);
+            if (used[j] || Math.abs(r) > tolerance.halfWidth(x, peaks.sigma(i), lines.sigma(j))) {
+                continue;
+            }
+            double s = tolerance.scoringSigma(x, peaks.sigma(i), lines.sigma(j));
+            double z = r / s;
+            used[j] = true;
+            search(i + 1, peaks, lines, tolerance, used, matches + 1, cost + 0.5 * z * z - Math.log(lines.strength(j)),
+                    best);
+            used[j] = false;
+        }
+    }
+}
