@@ -13,7 +13,8 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = RitzwerkCommand.Version.class,
         description = "Atomic energy levels and spectral lines for instrument, sensor and simulation work.",
-        subcommands = {ConvertCommand.class, LevelsCommand.class, LinesCommand.class, DataCommand.class, DemoCommand.class,
+        subcommands = {ConvertCommand.class, LevelsCommand.class, LinesCommand.class, IdentifyCommand.class,
+            DataCommand.class, DemoCommand.class,
             CommandLine.HelpCommand.class})
 final class RitzwerkCommand implements Runnable {
 

@@ -1,0 +1,280 @@
+package org.ritzwerk.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.DataSet;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.Identifier;
+import org.ritzwerk.engine.identify.LineCatalog;
+import org.ritzwerk.engine.identify.PeakList;
+import org.ritzwerk.engine.identify.ShiftSearch;
+import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Kind;
+import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.PeakFiles;
+import org.ritzwerk.refdata.UserFiles;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code ritzwerk identify}: which lines explain the peaks of a measured spectrum. */
+@Command(name = "identify",
+        mixinStandardHelpOptions = true,
+        description = {
+            "Match measured peaks (a ritzwerk-peaks file) to candidate lines: one-electron ions",
+            "computed by the engine (--species) and line lists from the data sets or your files",
+            "(--lines). Each peak gets at most one line and each line at most one peak, chosen",
+            "together; optionally a Doppler velocity is found first. Prints every peak with its",
+            "line, residual and status, then unexplained peaks, missing strong lines and the",
+            "presence of each species."
+        },
+        footer = {"", "Examples:",
+            "  ritzwerk identify peaks.csv --species \"H I,He II\" --tolerance \"5 sigma\"",
+            "  ritzwerk identify peaks.csv --lines lamp-ne-i --tolerance \"0.02 nm\"",
+            "  ritzwerk identify peaks.json --species H --search-velocity 300 --format json"})
+final class IdentifyCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(paramLabel = "PEAKS_FILE", description = "Peaks in the ritzwerk-peaks format (CSV or JSON).")
+    Path peaksFile;
+
+    @Option(names = "--species", paramLabel = "SPECIES",
+            description = "One-electron ions whose lines the engine computes: \"H I\", D, \"He II\". Repeatable.")
+    List<String> species = new ArrayList<>();
+
+    @Option(names = "--lines", paramLabel = "SET",
+            description = "A data set id (e.g. lamp-ne-i) or a line-list file. Repeatable.")
+    List<String> lineSets = new ArrayList<>();
+
+    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "qed",
+            description = "Level model for --species: bohr, dirac, qed or hyperfine (default: ${DEFAULT-VALUE}).")
+    String model;
+
+    @Option(names = "--n-max", paramLabel = "N", defaultValue = "30",
+            description = "Highest upper n for --species lines (default: ${DEFAULT-VALUE}).")
+    int nMax;
+
+    @Option(names = "--components",
+            description = "Use fine-structure components of --species lines instead of n -> n' multiplets.")
+    boolean components;
+
+    @Option(names = "--tolerance", paramLabel = "TOL",
+            description = {"How far a peak may lie from its line: \"5 sigma\" (combined uncertainties;",
+                "the default when every peak has one), a width such as \"0.02 nm\" or \"0.5 cm-1\",",
+                "\"20 ppm\", or a resolving power \"R=20000\"."})
+    String tolerance;
+
+    @Option(names = "--search-velocity", paramLabel = "KM_PER_S",
+            description = "First find the Doppler velocity within +-KM_PER_S that explains the most lines.")
+    Double searchVelocity;
+
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
+            description = "text (table and summary), csv or json (one object per peak). Default: ${DEFAULT-VALUE}.")
+    Table.Format format;
+
+    @Override
+    public Integer call() {
+        if (species.isEmpty() && lineSets.isEmpty()) {
+            throw new IllegalArgumentException("give candidate lines: --species (one-electron ions) and/or --lines");
+        }
+        PeakFiles.Peaks read = PeakFiles.read(peaksFile);
+        double[] sigmas = read.allUncertain() ? read.uncertainties() : null;
+        PeakList peaks = PeakList.of(read.positions(), sigmas, read.allIntense() ? read.intensities() : null,
+                read.unit(), read.medium());
+        Tolerance tol = tolerance(read.allUncertain());
+        double reachFactor = 1 + (searchVelocity == null ? 0 : searchVelocity * 1e3 / PhysicalConstants.C) + 1e-3;
+        LineCatalog catalog = catalog(peaks, reachFactor);
+        Identifier identifier = Identifier.of(tol);
+        ShiftSearch.Fit fit = null;
+        LineCatalog used = catalog;
+        if (searchVelocity != null) {
+            if (!(searchVelocity > 0) || searchVelocity >= PhysicalConstants.C / 1e4) {
+                throw new IllegalArgumentException("--search-velocity must be positive and below c/10 (km/s), got "
+                        + searchVelocity);
+            }
+            fit = ShiftSearch.redshift(identifier, peaks, catalog, searchVelocity * 1e3);
+            used = catalog.shifted(fit.value());
+        }
+        Identification result = identifier.identify(peaks, used);
+        write(read, result, used, fit);
+        return 0;
+    }
+
+    private Tolerance tolerance(boolean uncertain) {
+        if (tolerance == null) {
+            if (!uncertain) {
+                throw new IllegalArgumentException("the peaks do not all state an uncertainty; give --tolerance, e.g. "
+                        + "\"0.02 nm\", \"20 ppm\" or \"R=20000\"");
+            }
+            return Tolerance.kSigma(5);
+        }
+        String text = tolerance.strip();
+        try {
+            if (text.endsWith("sigma")) {
+                return Tolerance.kSigma(Double.parseDouble(text.substring(0, text.length() - 5).strip()));
+            }
+            if (text.endsWith("ppm")) {
+                return Tolerance.relative(Double.parseDouble(text.substring(0, text.length() - 3).strip()) * 1e-6);
+            }
+            if (text.startsWith("R=")) {
+                return Tolerance.relative(1 / Double.parseDouble(text.substring(2).strip()));
+            }
+            String[] parts = text.split("\\s+");
+            if (parts.length == 2) {
+                Unit unit = Unit.fromSymbol(parts[1]).orElse(null);
+                if (unit != null && unit.kind() == Kind.WAVELENGTH) {
+                    return Tolerance.absolute(unit.toSi(Double.parseDouble(parts[0])));
+                }
+                if (unit != null && unit.kind() != Kind.TEMPERATURE) {
+                    throw new IllegalArgumentException("--tolerance in " + unit.symbol() + " is not supported yet; "
+                            + "give a wavelength width (nm, pm as 0.001 nm, Angstrom), ppm or R=");
+                }
+            }
+        } catch (NumberFormatException e) {
+            // reported below
+        }
+        throw new IllegalArgumentException("cannot read --tolerance '" + tolerance + "'; examples: \"5 sigma\", "
+                + "\"0.02 nm\", \"20 ppm\", \"R=20000\"");
+    }
+
+    private LineCatalog catalog(PeakList peaks, double reachFactor) {
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = 0;
+        for (int i = 0; i < peaks.size(); i++) {
+            lo = Math.min(lo, peaks.wavelength(i));
+            hi = Math.max(hi, peaks.wavelength(i));
+        }
+        lo /= reachFactor;
+        hi *= reachFactor;
+        LineCatalog.Builder builder = LineCatalog.builder();
+        int count = 0;
+        if (!species.isEmpty()) {
+            for (Ions.Ion ion : Ions.of(species, model)) {
+                HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
+                double fromHz = PhysicalConstants.C / hi;
+                double toHz = PhysicalConstants.C / lo;
+                LineTable table = components ? generator.components(nMax, fromHz, toHz)
+                        : generator.multiplets(nMax, fromHz, toHz);
+                for (int i = 0; i < table.size(); i++) {
+                    builder.add(ion.species(), PhysicalConstants.C / table.frequency(i), 0,
+                            table.upperWeight(i) * table.einsteinA(i), (components ? table.upperLabel(i) + " - "
+                                    + table.lowerLabel(i) + " " : "") + table.seriesName(i));
+                    count++;
+                }
+            }
+        }
+        DataRegistry registry = DataRegistry.discoverDefault();
+        for (String set : lineSets) {
+            Path path = Path.of(set);
+            DataSet data = Files.exists(path) ? UserFiles.read(path) : registry.load(set);
+            if (!(data instanceof LineList)) {
+                throw new IllegalArgumentException("--lines " + set + " is a " + data.info().kind().id()
+                        + " set, not a line list");
+            }
+            LineList list = (LineList) data;
+            double[] vacuum = new double[list.size()];
+            double[] positions = new double[list.size()];
+            for (int i = 0; i < list.size(); i++) {
+                positions[i] = list.position(i);
+            }
+            SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.METRE, Medium.vacuum(), vacuum);
+            for (int i = 0; i < list.size(); i++) {
+                if (vacuum[i] < lo || vacuum[i] > hi) {
+                    continue;
+                }
+                double sigma = list.uncertainty(i).isPresent()
+                        ? Math.abs(vacuum[i] / positions[i]) * list.uncertainty(i).getAsDouble() : 0;
+                double strength = list.intensity(i).isPresent() ? list.intensity(i).getAsDouble()
+                        : list.einsteinA(i).orElse(Double.NaN);
+                String label = list.lower(i) != null && list.upper(i) != null ? list.upper(i) + " - " + list.lower(i)
+                        : list.info().id() + " " + list.position(i) + " " + list.unit().symbol();
+                builder.add(list.species(i), vacuum[i], sigma, strength, label);
+                count++;
+            }
+        }
+        if (count == 0) {
+            throw new IllegalArgumentException("no candidate line lies in the range of the peaks ("
+                    + String.format(Locale.ROOT, "%.6g to %.6g nm in vacuum", lo * 1e9, hi * 1e9) + ")");
+        }
+        return builder.build();
+    }
+
+    private void write(PeakFiles.Peaks read, Identification result, LineCatalog lines, ShiftSearch.Fit fit) {
+        PrintWriter out = spec.commandLine().getOut();
+        Unit unit = read.unit();
+        Medium medium = read.medium();
+        Table table = new Table(List.of(
+                Table.Column.text("peak", "peak"),
+                Table.Column.text("file_line", "line"),
+                Table.Column.number("position", "position " + unit.symbol() + (medium == null ? "" : " "
+                        + medium.spec()), "%.6f"),
+                Table.Column.text("status", "status"),
+                Table.Column.text("species", "species"),
+                Table.Column.text("transition", "transition"),
+                Table.Column.number("line_position", "line", "%.6f"),
+                Table.Column.number("residual", "residual", "%+.6f"),
+                Table.Column.number("residual_sigma", "res/sigma", "%+.2f")));
+        double[] linePositions = new double[1];
+        for (int i = 0; i < read.size(); i++) {
+            int j = result.line(i);
+            String status = result.status(i) == Identification.MATCHED ? "matched"
+                    : result.status(i) == Identification.AMBIGUOUS ? "ambiguous" : "unexplained";
+            Double linePosition = null;
+            if (j >= 0) {
+                SpectralArrays.convert(new double[] {lines.wavelength(j)}, Unit.METRE, Medium.vacuum(), unit, medium,
+                        linePositions);
+                linePosition = linePositions[0];
+            }
+            table.add(i + 1, read.lines()[i], read.positions()[i], status, j < 0 ? null : lines.species(j).notation(),
+                    j < 0 ? null : lines.label(j), linePosition,
+                    linePosition == null ? null : read.positions()[i] - linePosition,
+                    j < 0 ? null : result.normalizedResidual(i));
+        }
+        table.write(out, format);
+        PrintWriter summary = format == Table.Format.text ? out : spec.commandLine().getErr();
+        if (format == Table.Format.text) {
+            summary.println();
+        }
+        summary.println(String.format(Locale.ROOT, "%d peaks: %d matched, %d ambiguous, %d unexplained%s",
+                read.size(), result.count(Identification.MATCHED), result.count(Identification.AMBIGUOUS),
+                result.count(Identification.UNEXPLAINED),
+                fit == null ? "" : String.format(Locale.ROOT, "; velocity %.3f +- %.3f km/s from %d lines",
+                        fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, fit.matches())));
+        int[] missing = result.missingStrongLines();
+        if (missing.length > 0) {
+            StringBuilder text = new StringBuilder("missing strong lines: ");
+            for (int k = 0; k < Math.min(missing.length, 10); k++) {
+                int j = missing[k];
+                text.append(k == 0 ? "" : "; ").append(lines.species(j).notation()).append(' ').append(lines.label(j))
+                        .append(String.format(Locale.ROOT, " (%.6f nm vacuum)", lines.wavelength(j) * 1e9));
+            }
+            if (missing.length > 10) {
+                text.append("; and ").append(missing.length - 10).append(" more");
+            }
+            summary.println(text);
+        }
+        for (Identification.SpeciesPresence presence : result.speciesPresence()) {
+            summary.println(String.format(Locale.ROOT, "%s: %d lines matched; %d of %d strong lines in range found%s",
+                    presence.species().notation(), presence.matched(), presence.strongMatched(),
+                    presence.strongInRange(), presence.strongInRange() == 0 ? ""
+                            : String.format(Locale.ROOT, " (confidence %.2f)", presence.confidence())));
+        }
+        summary.flush();
+    }
+}

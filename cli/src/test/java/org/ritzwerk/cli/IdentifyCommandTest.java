@@ -1,0 +1,86 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/** {@code ritzwerk identify} end to end on peak files the test writes. */
+class IdentifyCommandTest {
+
+    private static final String HEADER = "# ritzwerk-peaks 1\n# id: test-run\n# title: invented peaks\n"
+            + "# source: invented test data\n# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: air\n";
+
+    @Test
+    void balmerPeaksInAirAreIdentified(@TempDir Path dir) throws IOException {
+        // H-alpha to H-delta air wavelengths 656.279, 486.135, 434.047, 410.174 nm (NIST Handbook
+        // of Basic Atomic Spectroscopic Data, strong lines of hydrogen; from memory), plus a peak
+        // that nothing explains.
+        Path peaks = dir.resolve("peaks.csv");
+        Files.writeString(peaks, HEADER + "position,uncertainty,intensity\n410.174,0.003,80\n434.047,0.003,150\n"
+                + "486.135,0.003,400\n656.279,0.003,1500\n700.000,0.003,10\n", StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I,He II", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        JsonMapper json = JsonMapper.builder().build();
+        String[] rows = run.out().strip().split("\\R");
+        assertEquals(5, rows.length);
+        String[] expected = {"Balmer delta", "Balmer gamma", "Balmer beta", "Balmer alpha"};
+        for (int i = 0; i < 4; i++) {
+            JsonNode row = json.readTree(rows[i]);
+            assertEquals("matched", row.get("status").asString(), rows[i]);
+            assertEquals("H I", row.get("species").asString());
+            assertEquals(expected[i], row.get("transition").asString());
+            assertEquals(i + 10, row.get("file_line").asInt());
+        }
+        assertEquals("unexplained", json.readTree(rows[4]).get("status").asString());
+        assertTrue(run.err().startsWith("5 peaks: 4 matched, 0 ambiguous, 1 unexplained"), run.err());
+    }
+
+    @Test
+    void findsTheVelocityFirst(@TempDir Path dir) throws IOException {
+        // The same lines seen from a source receding at 60 km/s (lambda times 1 + v/c).
+        double factor = 1 + 60e3 / 299_792_458.0;
+        StringBuilder rows = new StringBuilder("position,uncertainty\n");
+        for (double air : new double[] {410.174, 434.047, 486.135, 656.279}) {
+            rows.append(String.format(java.util.Locale.ROOT, "%.5f,0.002%n", air * factor));
+        }
+        Path peaks = dir.resolve("moving.csv");
+        Files.writeString(peaks, HEADER + rows, StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H", "--search-velocity", "200");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("4 peaks: 4 matched"), run.out());
+        java.util.regex.Matcher velocity = java.util.regex.Pattern.compile("velocity ([0-9.]+) \\+- ([0-9.]+) km/s")
+                .matcher(run.out());
+        assertTrue(velocity.find(), run.out());
+        assertEquals(60, Double.parseDouble(velocity.group(1)), 3 * Double.parseDouble(velocity.group(2)) + 1);
+    }
+
+    @Test
+    void badInputGivesOneClearMessage(@TempDir Path dir) throws IOException {
+        Path noSigma = dir.resolve("nosigma.csv");
+        Files.writeString(noSigma, HEADER + "position\n656.28\n", StandardCharsets.UTF_8);
+        CliTest.Run tolerance = CliTest.run("identify", noSigma.toString(), "--species", "H");
+        assertEquals(2, tolerance.code());
+        assertTrue(tolerance.err().contains("the peaks do not all state an uncertainty; give --tolerance"),
+                tolerance.err());
+        Path bad = dir.resolve("bad.csv");
+        Files.writeString(bad, HEADER + "position,uncertainty\n-656.28,0.01\nabc,0.01\n", StandardCharsets.UTF_8);
+        CliTest.Run rows = CliTest.run("identify", bad.toString(), "--species", "H");
+        assertEquals(2, rows.code());
+        assertTrue(rows.err().contains(bad + ":10:1: column position: position must not be negative"), rows.err());
+        assertTrue(rows.err().contains(bad + ":11:1: column position: position is not a number"), rows.err());
+        CliTest.Run none = CliTest.run("identify", noSigma.toString(), "--tolerance", "0.01 nm");
+        assertEquals(2, none.code());
+        assertTrue(none.err().contains("give candidate lines"), none.err());
+        CliTest.Run zero = CliTest.run("identify", noSigma.toString(), "--species", "H", "--tolerance", "0 nm");
+        assertEquals(2, zero.code());
+        assertTrue(zero.err().contains("tolerance must be finite and positive"), zero.err());
+    }
+}
