@@ -99,11 +99,8 @@ public final class Identifier {
      *                                  lack uncertainties (the window would be empty)
      */
     public Identification identify(PeakList peaks, LineCatalog lines) {
-        int n = peaks.size();
-        int m = lines.size();
         double[] pw = peaks.wavelengths();
         double[] ps = peaks.sigmas();
-        double[] lw = lines.wavelengths();
         if (tolerance.kind() == Tolerance.Kind.K_SIGMA && lines.maxSigma() == 0) {
             boolean any = false;
             for (double s : ps) {
@@ -114,25 +111,55 @@ public final class Identifier {
                         + "the lines have any; give them, or use an absolute or relative tolerance");
             }
         }
-        int[] order = sortedOrder(pw);
+        // Peaks usually come sorted; the pass checks that as it goes and, the first time a peak
+        // is out of order, starts again over a sorted permutation.
+        Results results = run(peaks, lines, null);
+        if (results == null) {
+            results = run(peaks, lines, sortedOrder(pw));
+        }
+        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used, results.greedy,
+                strongLine, tolerance, strengthWeight);
+    }
 
-        // One pass in wavelength order: the candidates of each peak come from a sorted merge;
-        // peaks that share candidate lines gather in a small component buffer, which is solved
-        // and written out as soon as the next peak cannot share a line with it.
+    /**
+     * One pass in wavelength order: the candidates of each peak come from a sorted merge; peaks
+     * that share candidate lines gather in a small component buffer, which is solved and written
+     * out as soon as the next peak cannot share a line with it.
+     *
+     * @param order the sorted permutation of the peaks, or null to take them as given
+     * @return the results, or null when order is null and the peaks turn out unsorted
+     */
+    private Results run(PeakList peaks, LineCatalog lines, int[] order) {
+        int n = peaks.size();
+        int m = lines.size();
+        double[] pw = peaks.wavelengths();
+        double[] ps = peaks.sigmas();
+        double[] lw = lines.wavelengths();
         Results results = new Results(n, m);
         Component component = new Component();
         double[] penalty = lines.negativeLogStrengths();
         boolean exactReach = tolerance.kind() != Tolerance.Kind.K_SIGMA;
         int lo = 0;
         double w = strengthWeight;
+        boolean fixed = tolerance.kind() == Tolerance.Kind.ABSOLUTE;
+        double fixedReach = fixed ? tolerance.value() : 0;
+        double fixedInverse = fixed ? 1 / tolerance.scoringSigma(1, 0, 0) : 0;
+        double maxLineSigma = lines.maxSigma();
+        double previous = Double.NEGATIVE_INFINITY;
         for (int k = 0; k < n; k++) {
             int i = order == null ? k : order[k];
             double x = pw[i];
-            double sigma = ps[i];
-            double reach = tolerance.halfWidth(x, sigma, lines.maxSigma());
+            if (x < previous) {
+                return null;
+            }
+            previous = x;
+            // An absolute tolerance needs no uncertainties: not reading them saves memory traffic.
+            double sigma = fixed ? 0 : ps[i];
             // For absolute and relative tolerances the window and scoring width depend on the
-            // peak alone, so the inner loop needs no per-line work beyond the cost.
-            double inverse = exactReach ? 1 / tolerance.scoringSigma(x, sigma, 0) : 0;
+            // peak alone (for absolute ones not even on that), so the inner loop needs no
+            // per-line work beyond the cost.
+            double reach = fixed ? fixedReach : tolerance.halfWidth(x, sigma, maxLineSigma);
+            double inverse = fixed ? fixedInverse : exactReach ? 1 / tolerance.scoringSigma(x, sigma, 0) : 0;
             while (lo < m && lw[lo] < x - reach) {
                 lo++;
             }
@@ -169,8 +196,7 @@ public final class Identifier {
         if (component.peaks > 0) {
             finish(component, results, pw, ps, lines, order);
         }
-        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used, results.greedy,
-                strongLine, tolerance, strengthWeight);
+        return results;
     }
 
     /** Solves the buffered component, writes its peaks' results and empties the buffer. */
@@ -186,10 +212,12 @@ public final class Identifier {
             c.clear();
             return;
         }
-        if (c.eachPeakBestDistinct()) {
-            // Every peak matched to its own cheapest line: the most matches at the least cost.
+        if (c.peaks == 1) {
+            c.cheapestForTheOnlyPeak();
         } else if (c.peaks <= MAX_EXACT_COMPONENT && tolerance.kind() == Tolerance.Kind.ABSOLUTE) {
             c.solveNonCrossing();
+        } else if (c.eachPeakBestDistinct()) {
+            // Every peak matched to its own cheapest line: the most matches at the least cost.
         } else if (c.peaks <= MAX_EXACT_COMPONENT) {
             c.solveExactly();
         } else {
@@ -291,6 +319,18 @@ public final class Identifier {
             peaks = 0;
             size = 0;
             maxLine = -1;
+        }
+
+        void cheapestForTheOnlyPeak() {
+            int best = -1;
+            double bestCost = Double.POSITIVE_INFINITY;
+            for (int q = 0; q < size; q++) {
+                if (cost[q] < bestCost) {
+                    bestCost = cost[q];
+                    best = line[q];
+                }
+            }
+            chosen[0] = best;
         }
 
         /**
