@@ -53,6 +53,12 @@ public class IdentifyBenchmark {
         return identifier.identify(scene.peaks, scene.lines);
     }
 
+    /** @return the same identification on two parts in parallel (this machine has two cores) */
+    @Benchmark
+    public Identification identifyInParallel() {
+        return identifier.identifyInParallel(scene.peaks, scene.lines, 2);
+    }
+
     /** @return the number of peak-line pairs within the tolerance, by one walk over both arrays */
     @Benchmark
     public long bareMerge() {

@@ -84,12 +84,26 @@ final class IdentifyCommand implements Callable<Integer> {
             description = "First find the Doppler velocity within +-KM_PER_S that explains the most lines.")
     Double searchVelocity;
 
+    @Option(names = "--search-offset", paramLabel = "NM",
+            description = "First find the constant wavelength offset within +-NM nm (a shifted scale) that explains"
+                    + " the most lines.")
+    Double searchOffset;
+
+    @Option(names = "--excitation-temperature", paramLabel = "K",
+            description = {"Weigh --species lines by g A exp(-E_upper / kT) at this temperature (kelvin)",
+                "instead of g A alone."})
+    Double excitationTemperature;
+
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (table and summary), csv or json (one object per peak). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
     @Override
     public Integer call() {
+        if (excitationTemperature != null && !(excitationTemperature > 0 && excitationTemperature < 1e9)) {
+            throw new IllegalArgumentException("--excitation-temperature must be a positive number of kelvin, got "
+                    + excitationTemperature);
+        }
         if (species.isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give candidate lines: --species (one-electron ions) and/or --lines");
         }
@@ -98,7 +112,8 @@ final class IdentifyCommand implements Callable<Integer> {
         PeakList peaks = PeakList.of(read.positions(), sigmas, read.allIntense() ? read.intensities() : null,
                 read.unit(), read.medium());
         Tolerance tol = tolerance(read.allUncertain());
-        double reachFactor = 1 + (searchVelocity == null ? 0 : searchVelocity * 1e3 / PhysicalConstants.C) + 1e-3;
+        double reachFactor = 1 + (searchVelocity == null ? 0 : searchVelocity * 1e3 / PhysicalConstants.C) + 1e-3
+                + (searchOffset == null ? 0 : searchOffset * 1e-9 / 100e-9);
         LineCatalog catalog = catalog(peaks, reachFactor);
         Identifier identifier = Identifier.of(tol);
         ShiftSearch.Fit fit = null;
@@ -111,8 +126,16 @@ final class IdentifyCommand implements Callable<Integer> {
             fit = ShiftSearch.redshift(identifier, peaks, catalog, searchVelocity * 1e3);
             used = catalog.shifted(fit.value());
         }
+        ShiftSearch.Fit offsetFit = null;
+        if (searchOffset != null) {
+            if (!(searchOffset > 0) || Double.isInfinite(searchOffset)) {
+                throw new IllegalArgumentException("--search-offset must be a positive width in nm, got " + searchOffset);
+            }
+            offsetFit = ShiftSearch.offset(identifier, peaks, used, searchOffset * 1e-9);
+            used = used.offset(offsetFit.value());
+        }
         Identification result = identifier.identify(peaks, used);
-        write(read, result, used, fit);
+        write(read, result, used, fit, offsetFit);
         return 0;
     }
 
@@ -171,10 +194,18 @@ final class IdentifyCommand implements Callable<Integer> {
                 double toHz = PhysicalConstants.C / lo;
                 LineTable table = components ? generator.components(nMax, fromHz, toHz)
                         : generator.multiplets(nMax, fromHz, toHz);
+                double ground = ion.model().energy(1, 0, 1);
                 for (int i = 0; i < table.size(); i++) {
-                    builder.add(ion.species(), PhysicalConstants.C / table.frequency(i), 0,
-                            table.upperWeight(i) * table.einsteinA(i), (components ? table.upperLabel(i) + " - "
-                                    + table.lowerLabel(i) + " " : "") + table.seriesName(i));
+                    double strength = table.upperWeight(i) * table.einsteinA(i);
+                    if (excitationTemperature != null) {
+                        int n = table.upperN(i);
+                        double upper = table.upperL(i) < 0 ? ion.model().energy(n, 0, 1)
+                                : ion.model().energy(n, table.upperL(i), table.upperTwoJ(i));
+                        strength *= Math.exp(-(upper - ground) / (PhysicalConstants.K * excitationTemperature));
+                    }
+                    builder.add(ion.species(), PhysicalConstants.C / table.frequency(i), 0, strength,
+                            (components ? table.upperLabel(i) + " - " + table.lowerLabel(i) + " " : "")
+                                    + table.seriesName(i));
                     count++;
                 }
             }
@@ -215,7 +246,8 @@ final class IdentifyCommand implements Callable<Integer> {
         return builder.build();
     }
 
-    private void write(PeakFiles.Peaks read, Identification result, LineCatalog lines, ShiftSearch.Fit fit) {
+    private void write(PeakFiles.Peaks read, Identification result, LineCatalog lines, ShiftSearch.Fit fit,
+            ShiftSearch.Fit offsetFit) {
         PrintWriter out = spec.commandLine().getOut();
         Unit unit = read.unit();
         Medium medium = read.medium();
@@ -254,8 +286,10 @@ final class IdentifyCommand implements Callable<Integer> {
         summary.println(String.format(Locale.ROOT, "%d peaks: %d matched, %d ambiguous, %d unexplained%s",
                 read.size(), result.count(Identification.MATCHED), result.count(Identification.AMBIGUOUS),
                 result.count(Identification.UNEXPLAINED),
-                fit == null ? "" : String.format(Locale.ROOT, "; velocity %.3f +- %.3f km/s from %d lines",
-                        fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, fit.matches())));
+                (fit == null ? "" : String.format(Locale.ROOT, "; velocity %.3f +- %.3f km/s from %d lines",
+                        fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, fit.matches()))
+                        + (offsetFit == null ? "" : String.format(Locale.ROOT, "; offset %.6f +- %.6f nm from %d lines",
+                                offsetFit.value() * 1e9, offsetFit.uncertainty() * 1e9, offsetFit.matches()))));
         int[] missing = result.missingStrongLines();
         if (missing.length > 0) {
             StringBuilder text = new StringBuilder("missing strong lines: ");

@@ -63,6 +63,26 @@ class IdentifyCommandTest {
     }
 
     @Test
+    void findsAConstantOffsetAndWeighsByTemperature(@TempDir Path dir) throws IOException {
+        // The Balmer lines read 0.03 nm long on a miscalibrated scale.
+        StringBuilder rows = new StringBuilder("position,uncertainty\n");
+        for (double air : new double[] {410.174, 434.047, 486.135, 656.279}) {
+            rows.append(String.format(java.util.Locale.ROOT, "%.5f,0.002%n", air + 0.03));
+        }
+        Path peaks = dir.resolve("offset.csv");
+        Files.writeString(peaks, HEADER + rows, StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H", "--search-offset", "0.1",
+                "--excitation-temperature", "12000");
+        assertEquals(0, run.code(), run.err());
+        java.util.regex.Matcher offset = java.util.regex.Pattern.compile("offset ([0-9.]+) \\+- ([0-9.]+) nm")
+                .matcher(run.out());
+        assertTrue(offset.find(), run.out());
+        // 0.03 nm in air is 0.03 x n = 0.030008 nm in vacuum (n - 1 = 2.8e-4; common practice).
+        assertEquals(0.03, Double.parseDouble(offset.group(1)), 3 * Double.parseDouble(offset.group(2)) + 1e-4);
+        assertTrue(run.out().contains("4 peaks: 4 matched"), run.out());
+    }
+
+    @Test
     void badInputGivesOneClearMessage(@TempDir Path dir) throws IOException {
         Path noSigma = dir.resolve("nosigma.csv");
         Files.writeString(noSigma, HEADER + "position\n656.28\n", StandardCharsets.UTF_8);

@@ -1,6 +1,8 @@
 package org.ritzwerk.engine.identify;
 
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
 
@@ -101,24 +103,60 @@ public final class Identifier {
     public Identification identify(PeakList peaks, LineCatalog lines) {
         double[] pw = peaks.wavelengths();
         double[] ps = peaks.sigmas();
-        if (tolerance.kind() == Tolerance.Kind.K_SIGMA && lines.maxSigma() == 0) {
-            boolean any = false;
-            for (double s : ps) {
-                any |= s > 0;
-            }
-            if (!any) {
-                throw new IllegalArgumentException("a k-sigma tolerance needs uncertainties, but neither the peaks nor "
-                        + "the lines have any; give them, or use an absolute or relative tolerance");
-            }
-        }
+        identifyChecks(peaks, lines);
         // Peaks usually come sorted; the pass checks that as it goes and, the first time a peak
         // is out of order, starts again over a sorted permutation.
-        Results results = run(peaks, lines, null);
-        if (results == null) {
-            results = run(peaks, lines, sortedOrder(pw));
+        Results results = new Results(peaks.size(), lines.size());
+        if (!run(peaks, lines, null, results, 0, peaks.size())) {
+            results = new Results(peaks.size(), lines.size());
+            run(peaks, lines, sortedOrder(pw), results, 0, peaks.size());
         }
-        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used, results.greedy,
-                strongLine, tolerance, strengthWeight);
+        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used,
+                results.greedy.get(), strongLine, tolerance, strengthWeight);
+    }
+
+    /**
+     * The same identification as {@link #identify}, bit for bit, computed on several threads:
+     * the sorted peaks are cut where no line can be a candidate of peaks on both sides, and the
+     * parts run in parallel on the common fork-join pool.
+     *
+     * @param peaks the measured peaks
+     * @param lines the candidate lines
+     * @param parts how many parts to aim for (e.g. the number of cores), at least 1
+     * @return the identification, equal to {@link #identify}'s
+     */
+    public Identification identifyInParallel(PeakList peaks, LineCatalog lines, int parts) {
+        if (parts < 1) {
+            throw new IllegalArgumentException("parts must be at least 1, got " + parts);
+        }
+        identifyChecks(peaks, lines);
+        double[] pw = peaks.wavelengths();
+        double[] ps = peaks.sigmas();
+        int n = peaks.size();
+        int[] order = sortedOrder(pw);
+        List<Integer> cuts = new ArrayList<>();
+        cuts.add(0);
+        for (int part = 1; part < parts; part++) {
+            int k = Math.max((int) ((long) n * part / parts), cuts.get(cuts.size() - 1) + 1);
+            for (; k < n; k++) {
+                int a = order == null ? k - 1 : order[k - 1];
+                int b = order == null ? k : order[k];
+                double reachA = tolerance.halfWidth(pw[a], ps[a], lines.maxSigma());
+                double reachB = tolerance.halfWidth(pw[b], ps[b], lines.maxSigma());
+                if (pw[b] - reachB > pw[a] + reachA) {
+                    break; // no line can lie within reach of both
+                }
+            }
+            if (k < n) {
+                cuts.add(k);
+            }
+        }
+        cuts.add(n);
+        Results results = new Results(n, lines.size());
+        java.util.stream.IntStream.range(0, cuts.size() - 1).parallel()
+                .forEach(c -> run(peaks, lines, order, results, cuts.get(c), cuts.get(c + 1)));
+        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used,
+                results.greedy.get(), strongLine, tolerance, strengthWeight);
     }
 
     /**
@@ -126,16 +164,17 @@ public final class Identifier {
      * that share candidate lines gather in a small component buffer, which is solved and written
      * out as soon as the next peak cannot share a line with it.
      *
-     * @param order the sorted permutation of the peaks, or null to take them as given
-     * @return the results, or null when order is null and the peaks turn out unsorted
+     * @param order   the sorted permutation of the peaks, or null to take them as given
+     * @param results where to write, shared by parts that never share a line
+     * @param from    first sorted position of this part
+     * @param to      end of this part (exclusive)
+     * @return false when order is null and the peaks turn out unsorted (results then partial)
      */
-    private Results run(PeakList peaks, LineCatalog lines, int[] order) {
-        int n = peaks.size();
+    private boolean run(PeakList peaks, LineCatalog lines, int[] order, Results results, int from, int to) {
         int m = lines.size();
         double[] pw = peaks.wavelengths();
         double[] ps = peaks.sigmas();
         double[] lw = lines.wavelengths();
-        Results results = new Results(n, m);
         Component component = new Component();
         double[] penalty = lines.negativeLogStrengths();
         boolean exactReach = tolerance.kind() != Tolerance.Kind.K_SIGMA;
@@ -146,11 +185,15 @@ public final class Identifier {
         double fixedInverse = fixed ? 1 / tolerance.scoringSigma(1, 0, 0) : 0;
         double maxLineSigma = lines.maxSigma();
         double previous = Double.NEGATIVE_INFINITY;
-        for (int k = 0; k < n; k++) {
+        if (from > 0) {
+            int first = order == null ? from : order[from];
+            lo = lowerBound(lw, pw[first] - tolerance.halfWidth(pw[first], ps[first], maxLineSigma));
+        }
+        for (int k = from; k < to; k++) {
             int i = order == null ? k : order[k];
             double x = pw[i];
             if (x < previous) {
-                return null;
+                return false;
             }
             previous = x;
             // An absolute tolerance needs no uncertainties: not reading them saves memory traffic.
@@ -196,7 +239,21 @@ public final class Identifier {
         if (component.peaks > 0) {
             finish(component, results, pw, ps, lines, order);
         }
-        return results;
+        return true;
+    }
+
+    private static int lowerBound(double[] sorted, double key) {
+        int lo = 0;
+        int hi = sorted.length;
+        while (lo < hi) {
+            int mid = (lo + hi) >>> 1;
+            if (sorted[mid] < key) {
+                lo = mid + 1;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
     }
 
     /** Solves the buffered component, writes its peaks' results and empties the buffer. */
@@ -221,7 +278,7 @@ public final class Identifier {
         } else if (c.peaks <= MAX_EXACT_COMPONENT) {
             c.solveExactly();
         } else {
-            results.greedy++;
+            results.greedy.incrementAndGet();
             c.solveGreedily();
         }
         double[] lw = lines.wavelengths();
@@ -263,7 +320,7 @@ public final class Identifier {
         final byte[] status;
         final int[] linePlusOne;
         final boolean[] used;
-        int greedy;
+        final java.util.concurrent.atomic.AtomicInteger greedy = new java.util.concurrent.atomic.AtomicInteger();
 
         Results(int n, int m) {
             status = new byte[n];
@@ -453,6 +510,19 @@ public final class Identifier {
                 }
             }
             return lo;
+        }
+    }
+
+    private void identifyChecks(PeakList peaks, LineCatalog lines) {
+        if (tolerance.kind() == Tolerance.Kind.K_SIGMA && lines.maxSigma() == 0) {
+            boolean any = false;
+            for (double s : peaks.sigmas()) {
+                any |= s > 0;
+            }
+            if (!any) {
+                throw new IllegalArgumentException("a k-sigma tolerance needs uncertainties, but neither the peaks nor "
+                        + "the lines have any; give them, or use an absolute or relative tolerance");
+            }
         }
     }
 

@@ -121,7 +121,11 @@ public final class ShiftSearch {
             stride *= 2;
         }
         if (size == 0) {
-            throw new IllegalArgumentException("no peak lies within the search range of any line");
+            throw new IllegalArgumentException(relative
+                    ? String.format(java.util.Locale.ROOT, "no peak lies within +-%.6g km/s of any line; widen the "
+                            + "velocity range or check the lines", range * PhysicalConstants.C / 1e3)
+                    : String.format(java.util.Locale.ROOT, "no peak lies within +-%.6g nm of any line; widen the "
+                            + "offset range or check the lines", range * 1e9));
         }
         return Arrays.copyOf(votes, size);
     }

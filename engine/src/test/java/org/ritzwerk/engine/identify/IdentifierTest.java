@@ -211,6 +211,42 @@ class IdentifierTest {
     }
 
     @Test
+    void theParallelVariantGivesTheSameResultBitForBit() {
+        qt().withFixedSeed(21L).withExamples(12).forAll(longs().all()).checkAssert(seed -> {
+            Scenes.Observation scene = Scenes.observe(LINES, 1e-4, 1e-12, 3.0, 0, seed);
+            for (Tolerance tolerance : new Tolerance[] {Tolerance.kSigma(5), Tolerance.absolute(4e-12),
+                Tolerance.relative(1e-8)}) {
+                Identifier identifier = Identifier.of(tolerance);
+                Identification one = identifier.identify(scene.peaks(), LINES);
+                Identification many = identifier.identifyInParallel(scene.peaks(), LINES, 7);
+                for (int i = 0; i < scene.peaks().size(); i++) {
+                    assertEquals(one.line(i), many.line(i));
+                    assertEquals(one.status(i), many.status(i));
+                }
+                assertEquals(java.util.Arrays.toString(one.missingStrongLines()),
+                        java.util.Arrays.toString(many.missingStrongLines()));
+            }
+        });
+    }
+
+    @Test
+    void findsAConstantWavelengthOffset() {
+        // An instrument whose scale reads 0.0123 nm long everywhere.
+        Scenes.Observation scene = Scenes.observe(LINES, 1e-3, 1e-12, 0.1, 0, 17L);
+        int n = scene.peaks().size();
+        double[] moved = new double[n];
+        double[] sigmas = new double[n];
+        for (int i = 0; i < n; i++) {
+            moved[i] = scene.peaks().wavelength(i) + 0.0123e-9;
+            sigmas[i] = scene.peaks().sigma(i);
+        }
+        ShiftSearch.Fit fit = ShiftSearch.offset(Identifier.of(Tolerance.kSigma(5)),
+                PeakList.ofVacuumMetres(moved, sigmas), LINES, 0.1e-9);
+        assertEquals(0.0123e-9, fit.value(), Math.max(3 * fit.uncertainty(), 1e-15));
+        assertTrue(fit.matches() > 50);
+    }
+
+    @Test
     void badInputIsRefusedClearly() {
         assertEquals("the peak list is empty", assertThrows(IllegalArgumentException.class,
                 () -> PeakList.ofVacuumMetres(new double[0], null)).getMessage());
