@@ -28,9 +28,11 @@ public final class Identification {
     private final double strongLine;
     private final Tolerance tolerance;
     private final double strengthWeight;
+    private final Identifier.IntensityTerm intensityTerm;
 
     Identification(PeakList peaks, LineCatalog lines, byte[] status, int[] linePlusOne, boolean[] used,
-            int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight) {
+            int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
+            Identifier.IntensityTerm intensityTerm) {
         this.peaks = peaks;
         this.lines = lines;
         this.status = status;
@@ -40,6 +42,15 @@ public final class Identification {
         this.strongLine = strongLine;
         this.tolerance = tolerance;
         this.strengthWeight = strengthWeight;
+        this.intensityTerm = intensityTerm;
+    }
+
+    /**
+     * @return the intensity scale ln A the second pass used (median of ln I - ln S over the first
+     *         matches), NaN when the observed intensities were not used
+     */
+    public double intensityScale() {
+        return intensityTerm.weight() == 0 ? Double.NaN : intensityTerm.scale();
     }
 
     /** Presence of one species among the identified lines. */
@@ -95,7 +106,9 @@ public final class Identification {
             }
             double s = tolerance.scoringSigma(x, sigma, lines.sigma(j));
             double z = s > 0 ? r / s : 0;
-            double c = 0.5 * z * z - strengthWeight * Math.log(lines.strength(j));
+            double penalty = -Math.log(lines.strength(j));
+            double logIntensity = intensityTerm.weight() == 0 ? Double.NaN : Math.log(peaks.intensity(i));
+            double c = 0.5 * z * z + strengthWeight * penalty + intensityTerm.cost(logIntensity, penalty);
             if (c < bestCost) {
                 bestCost = c;
                 best = j;
@@ -124,7 +137,9 @@ public final class Identification {
             return Double.NaN;
         }
         double z = normalizedResidual(i);
-        return 0.5 * z * z - strengthWeight * Math.log(lines.strength(line(i)));
+        double penalty = -Math.log(lines.strength(line(i)));
+        double logIntensity = intensityTerm.weight() == 0 ? Double.NaN : Math.log(peaks.intensity(i));
+        return 0.5 * z * z + strengthWeight * penalty + intensityTerm.cost(logIntensity, penalty);
     }
 
     /** @return how many components were too large for the exact assignment */

@@ -17,7 +17,11 @@ import java.util.Objects;
  * <p><b>Score.</b> Each candidate gets the cost
  * {@code c = (r / s)^2 / 2 - w ln(S)}: the negative log-likelihood of the residual r against the
  * scoring uncertainty s (Gaussian), plus the negative log of the line's relative expected strength
- * S in (0, 1] weighted by w (default 1; 0 ignores strengths). Lower is better.
+ * S in (0, 1] weighted by w (default 1; 0 ignores strengths). When every peak states an
+ * intensity I, a second pass adds {@code v (ln I - ln A - ln S)^2 / (2 t^2)}: the observed
+ * intensity against the expected one, with the scale ln A and spread t (at least ln 3) taken
+ * robustly (median and MAD) from the first pass's matches, weighted by v (default 1; 0 ignores
+ * intensities). Lower is better.
  *
  * <p><b>Assignment.</b> Each peak explains at most one line and each line at most one peak. Peaks
  * that share candidate lines form a component; every component is solved exactly as a
@@ -46,11 +50,15 @@ public final class Identifier {
     private final double ambiguityMargin;
     private final double strongLine;
 
-    private Identifier(Tolerance tolerance, double strengthWeight, double ambiguityMargin, double strongLine) {
+    private final double intensityWeight;
+
+    private Identifier(Tolerance tolerance, double strengthWeight, double ambiguityMargin, double strongLine,
+            double intensityWeight) {
         this.tolerance = Objects.requireNonNull(tolerance, "tolerance");
         this.strengthWeight = strengthWeight;
         this.ambiguityMargin = ambiguityMargin;
         this.strongLine = strongLine;
+        this.intensityWeight = intensityWeight;
     }
 
     /**
@@ -59,19 +67,19 @@ public final class Identifier {
      *         with relative strength at least 0.3
      */
     public static Identifier of(Tolerance tolerance) {
-        return new Identifier(tolerance, 1, 2, 0.3);
+        return new Identifier(tolerance, 1, 2, 0.3, 1);
     }
 
     /** @param weight w in the cost, finite and >= 0 @return a copy with that weight */
     public Identifier withStrengthWeight(double weight) {
         check("strength weight", weight);
-        return new Identifier(tolerance, weight, ambiguityMargin, strongLine);
+        return new Identifier(tolerance, weight, ambiguityMargin, strongLine, intensityWeight);
     }
 
     /** @param margin cost difference below which two close candidates are ambiguous, >= 0 @return a copy */
     public Identifier withAmbiguityMargin(double margin) {
         check("ambiguity margin", margin);
-        return new Identifier(tolerance, strengthWeight, margin, strongLine);
+        return new Identifier(tolerance, strengthWeight, margin, strongLine, intensityWeight);
     }
 
     /** @param threshold relative strength from which a line counts as strong, in (0, 1] @return a copy */
@@ -79,7 +87,17 @@ public final class Identifier {
         if (!(threshold > 0 && threshold <= 1)) {
             throw new IllegalArgumentException("strong-line threshold must be in (0, 1], got " + threshold);
         }
-        return new Identifier(tolerance, strengthWeight, ambiguityMargin, threshold);
+        return new Identifier(tolerance, strengthWeight, ambiguityMargin, threshold, intensityWeight);
+    }
+
+    /**
+     * @param weight v in the intensity term of the cost, finite and &gt;= 0 (0 ignores the
+     *               observed intensities)
+     * @return a copy with that weight
+     */
+    public Identifier withIntensityWeight(double weight) {
+        check("intensity weight", weight);
+        return new Identifier(tolerance, strengthWeight, ambiguityMargin, strongLine, weight);
     }
 
     private static void check(String what, double value) {
@@ -106,13 +124,71 @@ public final class Identifier {
         identifyChecks(peaks, lines);
         // Peaks usually come sorted; the pass checks that as it goes and, the first time a peak
         // is out of order, starts again over a sorted permutation.
+        IntensityTerm none = IntensityTerm.NONE;
         Results results = new Results(peaks.size(), lines.size());
-        if (!run(peaks, lines, null, results, 0, peaks.size())) {
+        int[] order = null;
+        if (!run(peaks, lines, null, results, 0, peaks.size(), none)) {
+            order = sortedOrder(pw);
             results = new Results(peaks.size(), lines.size());
-            run(peaks, lines, sortedOrder(pw), results, 0, peaks.size());
+            run(peaks, lines, order, results, 0, peaks.size(), none);
+        }
+        IntensityTerm term = IntensityTerm.from(peaks, lines, results.linePlusOne, intensityWeight);
+        if (term != IntensityTerm.NONE) {
+            results = new Results(peaks.size(), lines.size());
+            run(peaks, lines, order, results, 0, peaks.size(), term);
         }
         return new Identification(peaks, lines, results.status, results.linePlusOne, results.used,
-                results.greedy.get(), strongLine, tolerance, strengthWeight);
+                results.greedy.get(), strongLine, tolerance, strengthWeight, term);
+    }
+
+    /**
+     * The intensity part of the cost: off when weight, intensities or matches are missing.
+     *
+     * @param weight v
+     * @param scale  ln A, the median of ln I - ln S over the first matches
+     * @param spread t, the robust spread of those differences, at least ln 3
+     */
+    record IntensityTerm(double weight, double scale, double spread) {
+
+        static final IntensityTerm NONE = new IntensityTerm(0, 0, 1);
+
+        double cost(double logIntensity, double negativeLogStrength) {
+            if (weight == 0 || Double.isNaN(logIntensity)) {
+                return 0;
+            }
+            double d = (logIntensity - scale + negativeLogStrength) / spread;
+            return weight * 0.5 * d * d;
+        }
+
+        static IntensityTerm from(PeakList peaks, LineCatalog lines, int[] linePlusOne, double weight) {
+            if (weight == 0) {
+                return NONE;
+            }
+            double[] differences = new double[peaks.size()];
+            int count = 0;
+            for (int i = 0; i < peaks.size(); i++) {
+                double intensity = peaks.intensity(i);
+                if (Double.isNaN(intensity)) {
+                    return NONE; // only when every peak states one
+                }
+                int j = linePlusOne[i] - 1;
+                if (j >= 0 && intensity > 0) {
+                    differences[count++] = Math.log(intensity) + lines.negativeLogStrengths()[j];
+                }
+            }
+            if (count < 3) {
+                return NONE;
+            }
+            double[] sorted = Arrays.copyOf(differences, count);
+            Arrays.sort(sorted);
+            double median = sorted[count / 2];
+            for (int k = 0; k < count; k++) {
+                sorted[k] = Math.abs(sorted[k] - median);
+            }
+            Arrays.sort(sorted);
+            double spread = Math.max(1.4826 * sorted[count / 2], Math.log(3));
+            return new IntensityTerm(weight, median, spread);
+        }
     }
 
     /**
@@ -152,11 +228,17 @@ public final class Identifier {
             }
         }
         cuts.add(n);
-        Results results = new Results(n, lines.size());
+        Results first = new Results(n, lines.size());
         java.util.stream.IntStream.range(0, cuts.size() - 1).parallel()
-                .forEach(c -> run(peaks, lines, order, results, cuts.get(c), cuts.get(c + 1)));
+                .forEach(c -> run(peaks, lines, order, first, cuts.get(c), cuts.get(c + 1), IntensityTerm.NONE));
+        IntensityTerm term = IntensityTerm.from(peaks, lines, first.linePlusOne, intensityWeight);
+        Results results = term == IntensityTerm.NONE ? first : new Results(n, lines.size());
+        if (term != IntensityTerm.NONE) {
+            java.util.stream.IntStream.range(0, cuts.size() - 1).parallel()
+                    .forEach(c -> run(peaks, lines, order, results, cuts.get(c), cuts.get(c + 1), term));
+        }
         return new Identification(peaks, lines, results.status, results.linePlusOne, results.used,
-                results.greedy.get(), strongLine, tolerance, strengthWeight);
+                results.greedy.get(), strongLine, tolerance, strengthWeight, term);
     }
 
     /**
@@ -168,9 +250,11 @@ public final class Identifier {
      * @param results where to write, shared by parts that never share a line
      * @param from    first sorted position of this part
      * @param to      end of this part (exclusive)
+     * @param term    the intensity part of the cost
      * @return false when order is null and the peaks turn out unsorted (results then partial)
      */
-    private boolean run(PeakList peaks, LineCatalog lines, int[] order, Results results, int from, int to) {
+    private boolean run(PeakList peaks, LineCatalog lines, int[] order, Results results, int from, int to,
+            IntensityTerm term) {
         int m = lines.size();
         double[] pw = peaks.wavelengths();
         double[] ps = peaks.sigmas();
@@ -184,6 +268,7 @@ public final class Identifier {
         double fixedReach = fixed ? tolerance.value() : 0;
         double fixedInverse = fixed ? 1 / tolerance.scoringSigma(1, 0, 0) : 0;
         double maxLineSigma = lines.maxSigma();
+        boolean withIntensity = term.weight() != 0;
         double previous = Double.NEGATIVE_INFINITY;
         if (from > 0) {
             int first = order == null ? from : order[from];
@@ -203,6 +288,7 @@ public final class Identifier {
             // per-line work beyond the cost.
             double reach = fixed ? fixedReach : tolerance.halfWidth(x, sigma, maxLineSigma);
             double inverse = fixed ? fixedInverse : exactReach ? 1 / tolerance.scoringSigma(x, sigma, 0) : 0;
+            double logIntensity = withIntensity ? Math.log(peaks.intensity(i)) : Double.NaN;
             while (lo < m && lw[lo] < x - reach) {
                 lo++;
             }
@@ -228,7 +314,8 @@ public final class Identifier {
                         before = 0;
                     }
                 }
-                component.addCandidate(j, 0.5 * z * z + w * penalty[j]);
+                double c = 0.5 * z * z + w * penalty[j];
+                component.addCandidate(j, withIntensity ? c + term.cost(logIntensity, penalty[j]) : c);
             }
             if (firstLine >= 0) {
                 component.closePeak(k, before);

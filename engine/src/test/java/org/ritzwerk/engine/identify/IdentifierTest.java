@@ -247,6 +247,32 @@ class IdentifierTest {
     }
 
     @Test
+    void observedIntensityDecidesBetweenAStrongAndAWeakNeighbour() {
+        // Five isolated lines set the intensity scale (observed = 1000 x expected); then a faint
+        // peak sits between a strong line A (slightly nearer) and a weak line B. By position and
+        // expected strength alone A wins; the observed intensity says B (documented score).
+        LineCatalog.Builder builder = LineCatalog.builder();
+        double[] strengths = {1, 0.5, 0.2, 0.1, 0.05};
+        double[] positions = new double[6];
+        double[] intensities = new double[6];
+        for (int k = 0; k < 5; k++) {
+            builder.add(Species.parse("Ne I"), (400 + 10 * k) * 1e-9, 0, strengths[k], "ref " + k);
+            positions[k] = (400 + 10 * k) * 1e-9;
+            intensities[k] = 1000 * strengths[k];
+        }
+        builder.add(Species.parse("Ne I"), 500.0000e-9, 0, 1, "A").add(Species.parse("Ne I"), 500.0010e-9, 0, 0.001, "B");
+        LineCatalog lines = builder.build();
+        positions[5] = 500.0004e-9;
+        intensities[5] = 1;
+        PeakList peaks = PeakList.of(positions, null, intensities, Unit.METRE, Medium.vacuum());
+        Identifier identifier = Identifier.of(Tolerance.absolute(0.003e-9));
+        assertEquals("A", lines.label(identifier.withIntensityWeight(0).identify(peaks, lines).line(5)));
+        Identification weighed = identifier.identify(peaks, lines);
+        assertEquals("B", lines.label(weighed.line(5)));
+        assertEquals(Math.log(1000), weighed.intensityScale(), 1e-9);
+    }
+
+    @Test
     void badInputIsRefusedClearly() {
         assertEquals("the peak list is empty", assertThrows(IllegalArgumentException.class,
                 () -> PeakList.ofVacuumMetres(new double[0], null)).getMessage());
