@@ -92,29 +92,40 @@ public final class Identification {
      */
     public int runnerUp(int i) {
         int chosen = line(i);
+        for (int j : rankedCandidates(i)) {
+            if (j != chosen) {
+                return j;
+            }
+        }
+        return -1;
+    }
+
+    /**
+     * @param i peak index
+     * @return every line within the tolerance of the peak, cheapest first (by the cost the
+     *         identifier used, found on request); the assigned line need not be first, since the
+     *         assignment is one-to-one over all peaks
+     */
+    public int[] rankedCandidates(int i) {
         double x = peaks.wavelength(i);
         double sigma = peaks.sigma(i);
         double reach = tolerance.halfWidth(x, sigma, lines.maxSigma());
         int j = java.util.Arrays.binarySearch(lines.wavelengths(), x - reach);
         j = j < 0 ? -j - 1 : j;
-        int best = -1;
-        double bestCost = Double.POSITIVE_INFINITY;
+        List<double[]> found = new ArrayList<>();
         for (; j < lines.size() && lines.wavelength(j) <= x + reach; j++) {
             double r = x - lines.wavelength(j);
-            if (j == chosen || Math.abs(r) > tolerance.halfWidth(x, sigma, lines.sigma(j))) {
+            if (Math.abs(r) > tolerance.halfWidth(x, sigma, lines.sigma(j))) {
                 continue;
             }
             double s = tolerance.scoringSigma(x, sigma, lines.sigma(j));
             double z = s > 0 ? r / s : 0;
             double penalty = -Math.log(lines.strength(j));
             double logIntensity = intensityTerm.weight() == 0 ? Double.NaN : Math.log(peaks.intensity(i));
-            double c = 0.5 * z * z + strengthWeight * penalty + intensityTerm.cost(logIntensity, penalty);
-            if (c < bestCost) {
-                bestCost = c;
-                best = j;
-            }
+            found.add(new double[] {0.5 * z * z + strengthWeight * penalty + intensityTerm.cost(logIntensity, penalty), j});
         }
-        return best;
+        found.sort((p, q) -> Double.compare(p[0], q[0]));
+        return found.stream().mapToInt(c -> (int) c[1]).toArray();
     }
 
     /** @param i peak index @return peak minus line vacuum wavelength, metres; NaN when unexplained */

@@ -81,6 +81,9 @@ class IdentifierTest {
         Identification result = Identifier.of(Tolerance.absolute(0.5e-9)).withStrengthWeight(0).identify(peaks, LINES);
         assertEquals("H I Balmer alpha", LINES.label(result.line(0)));
         assertTrue(LINES.label(result.runnerUp(0)).startsWith("He II"), LINES.label(result.runnerUp(0)));
+        int[] ranked = result.rankedCandidates(0);
+        assertEquals(result.line(0), ranked[0]);
+        assertEquals(result.runnerUp(0), ranked[1]);
     }
 
     @Test
