@@ -15,7 +15,7 @@ class IdentifyBenchmarksTest {
 
     @Test
     void baselinesAndIdentificationAgreeOnTheScene() {
-        IdentifyScene scene = new IdentifyScene(2_000, 20_000, 3L);
+        IdentifyScene scene = new IdentifyScene(2_000, 20_000, 1L); // the seed setUp uses
         IdentifyBenchmark benchmark = new IdentifyBenchmark();
         benchmark.lines = 2_000;
         benchmark.peaks = 20_000;
