@@ -329,7 +329,8 @@ public final class Identifier {
         return true;
     }
 
-    private static int lowerBound(double[] sorted, double key) {
+    /** @return the first index whose value is not below key (sorted ascending) */
+    static int lowerBound(double[] sorted, double key) {
         int lo = 0;
         int hi = sorted.length;
         while (lo < hi) {

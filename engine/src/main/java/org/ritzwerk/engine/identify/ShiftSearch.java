@@ -103,7 +103,7 @@ public final class ShiftSearch {
                 double x = peaks.wavelength(i);
                 double lo = relative ? x / (1 + range) : x - range;
                 double hi = relative ? x / (1 - range) : x + range;
-                int j = lowerBound(lw, lo);
+                int j = Identifier.lowerBound(lw, lo);
                 for (; j < lw.length && lw[j] <= hi; j++) {
                     if (size == votes.length) {
                         if (size >= MAX_VOTES) {
@@ -199,19 +199,5 @@ public final class ShiftSearch {
                     + "use an absolute or relative tolerance");
         }
         return width;
-    }
-
-    private static int lowerBound(double[] sorted, double key) {
-        int lo = 0;
-        int hi = sorted.length;
-        while (lo < hi) {
-            int mid = (lo + hi) >>> 1;
-            if (sorted[mid] < key) {
-                lo = mid + 1;
-            } else {
-                hi = mid;
-            }
-        }
-        return lo;
     }
 }
