@@ -71,7 +71,8 @@ final class IdentifyCommand implements Callable<Integer> {
     int nMax;
 
     @Option(names = "--components",
-            description = "Use fine-structure components of --species lines instead of n -> n' multiplets.")
+            description = {"Use fine-structure components of --species lines instead of n -> n' multiplets",
+                "(a multiplet counts as a blend and may explain more than one peak)."})
     boolean components;
 
     @Option(names = "--tolerance", paramLabel = "TOL",
@@ -203,9 +204,16 @@ final class IdentifyCommand implements Callable<Integer> {
                                 : ion.model().energy(n, table.upperL(i), table.upperTwoJ(i));
                         strength *= Math.exp(-(upper - ground) / (PhysicalConstants.K * excitationTemperature));
                     }
-                    builder.add(ion.species(), PhysicalConstants.C / table.frequency(i), 0, strength,
-                            (components ? table.upperLabel(i) + " - " + table.lowerLabel(i) + " " : "")
-                                    + table.seriesName(i));
+                    String label = (components ? table.upperLabel(i) + " - " + table.lowerLabel(i) + " " : "")
+                            + table.seriesName(i);
+                    double vacuum = PhysicalConstants.C / table.frequency(i);
+                    if (components) {
+                        builder.add(ion.species(), vacuum, 0, strength, label);
+                    } else {
+                        // A multiplet blends its fine-structure components: it may explain each of
+                        // them where the instrument half-resolves them.
+                        builder.addBlend(ion.species(), vacuum, 0, strength, label);
+                    }
                     count++;
                 }
             }

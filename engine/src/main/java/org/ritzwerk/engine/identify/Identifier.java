@@ -259,7 +259,7 @@ public final class Identifier {
         double[] pw = peaks.wavelengths();
         double[] ps = peaks.sigmas();
         double[] lw = lines.wavelengths();
-        Component component = new Component();
+        Component component = new Component(lines.blends());
         double[] penalty = lines.negativeLogStrengths();
         boolean exactReach = tolerance.kind() != Tolerance.Kind.K_SIGMA;
         int lo = 0;
@@ -426,6 +426,42 @@ public final class Identifier {
      * candidates of the p-th peak are {@code line/cost[start[p] .. start[p+1])}.
      */
     private static final class Component {
+        /** The catalog's blend flags, or null when there is no blend. */
+        private final boolean[] blend;
+
+        Component(boolean[] blend) {
+            this.blend = blend;
+        }
+
+        private boolean isBlend(int j) {
+            return blend != null && blend[j];
+        }
+
+        /** For each peak the cheapest blended candidate (line, or -1) and its cost. */
+        private int[] blendLine = new int[16];
+        private double[] blendCost = new double[16];
+
+        /** Fills blendLine and blendCost for the peaks of the component. */
+        private void cheapestBlends() {
+            if (blendLine.length < peaks) {
+                blendLine = new int[2 * peaks];
+                blendCost = new double[2 * peaks];
+            }
+            for (int p = 0; p < peaks; p++) {
+                blendLine[p] = -1;
+                blendCost[p] = Double.POSITIVE_INFINITY;
+                if (blend == null) {
+                    continue;
+                }
+                for (int q = start[p]; q < start[p + 1]; q++) {
+                    if (blend[line[q]] && cost[q] < blendCost[p]) {
+                        blendCost[p] = cost[q];
+                        blendLine[p] = line[q];
+                    }
+                }
+            }
+        }
+
         int[] peakOrder = new int[16];
         int[] start = new int[17];
         int[] chosen = new int[16];
@@ -499,7 +535,7 @@ public final class Identifier {
             // only when it is shared; compare every pair for the small components that remain.
             for (int p = 0; p < peaks; p++) {
                 for (int r = p + 1; r < peaks; r++) {
-                    if (chosen[p] == chosen[r]) {
+                    if (chosen[p] == chosen[r] && !isBlend(chosen[p])) {
                         return false;
                     }
                 }
@@ -531,21 +567,25 @@ public final class Identifier {
                 table = new double[Math.max((peaks + 1) * width, 2 * table.length)];
             }
             // table[p][l]: least cost of the first p peaks and first l lines, a match costing
-            // (its cost - UNMATCHED) so that more matches always win.
+            // (its cost - UNMATCHED) so that more matches always win. Blended lines may serve
+            // any number of peaks, so they are no column here: a peak that takes none of the
+            // ordinary lines takes its cheapest blend, if it has one (the "skip" cost).
+            cheapestBlends();
             for (int l = 0; l <= lines; l++) {
                 table[l] = 0;
             }
             for (int p = 1; p <= peaks; p++) {
                 int row = p * width;
-                table[row] = 0;
+                double skip = blendLine[p - 1] >= 0 ? blendCost[p - 1] - UNMATCHED : 0;
+                table[row] = table[row - width] + skip;
                 int q = start[p - 1];
                 int qEnd = start[p];
                 for (int l = 1; l <= lines; l++) {
-                    double best = Math.min(table[row - width + l], table[row + l - 1]);
+                    double best = Math.min(table[row - width + l] + skip, table[row + l - 1]);
                     while (q < qEnd && line[q] - lineMin < l - 1) {
                         q++;
                     }
-                    if (q < qEnd && line[q] - lineMin == l - 1) {
+                    if (q < qEnd && line[q] - lineMin == l - 1 && !isBlend(line[q])) {
                         best = Math.min(best, table[row - width + l - 1] + cost[q] - UNMATCHED);
                     }
                     table[row + l] = best;
@@ -555,12 +595,14 @@ public final class Identifier {
             int p = peaks;
             int l = lines;
             Arrays.fill(chosen, 0, peaks, -1);
-            while (p > 0 && l > 0) {
+            while (p > 0) {
                 int row = p * width;
                 double here = table[row + l];
-                if (here == table[row - width + l]) {
+                double skip = blendLine[p - 1] >= 0 ? blendCost[p - 1] - UNMATCHED : 0;
+                if (here == table[row - width + l] + skip) {
+                    chosen[p - 1] = blendLine[p - 1];
                     p--;
-                } else if (here == table[row + l - 1]) {
+                } else if (l > 0 && here == table[row + l - 1]) {
                     l--;
                 } else {
                     chosen[p - 1] = lineMin + l - 1;
@@ -580,7 +622,7 @@ public final class Identifier {
             java.util.Set<Integer> taken = new java.util.HashSet<>();
             for (int q : byCost) {
                 int p = peakOf(q);
-                if (chosen[p] < 0 && taken.add(line[q])) {
+                if (chosen[p] < 0 && (isBlend(line[q]) || taken.add(line[q]))) {
                     chosen[p] = line[q];
                 }
             }
@@ -663,19 +705,24 @@ public final class Identifier {
                 matrix = new double[rows * cols];
             }
             Arrays.fill(matrix, 0, rows * cols, UNMATCHED * 100);
+            c.cheapestBlends();
             for (int r = 0; r < rows; r++) {
                 for (int q = c.start[r]; q < c.start[r + 1]; q++) {
-                    matrix[r * cols + c.line[q] - lineMin] = c.cost[q];
+                    if (!c.isBlend(c.line[q])) {
+                        matrix[r * cols + c.line[q] - lineMin] = c.cost[q];
+                    }
                 }
-                matrix[r * cols + lines + r] = UNMATCHED;
+                // A row's own dummy column: its cheapest blend (which may serve every row), or nothing.
+                matrix[r * cols + lines + r] = c.blendLine[r] >= 0 ? c.blendCost[r] : UNMATCHED;
             }
             int[] rowOfColumn = hungarian(rows, cols);
             Arrays.fill(c.chosen, 0, rows, -1);
-            for (int col = 0; col < lines; col++) {
+            for (int col = 0; col < cols; col++) {
                 int r = rowOfColumn[col];
-                if (r >= 0 && matrix[r * cols + col] < UNMATCHED) {
-                    c.chosen[r] = col + lineMin;
+                if (r < 0 || matrix[r * cols + col] >= UNMATCHED) {
+                    continue;
                 }
+                c.chosen[r] = col < lines ? col + lineMin : c.blendLine[r];
             }
         }
 

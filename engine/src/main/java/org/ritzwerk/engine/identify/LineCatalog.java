@@ -22,11 +22,13 @@ public final class LineCatalog {
     private final double[] negativeLogStrength;
     private final int[] species;
     private final String[] label;
+    private final boolean[] blend;
     private final List<Species> speciesList;
     private final double maxSigma;
 
     private LineCatalog(double[] wavelength, double[] sigma, double[] strength, int[] species, String[] label,
-            List<Species> speciesList) {
+            boolean[] blend, List<Species> speciesList) {
+        this.blend = blend;
         this.wavelength = wavelength;
         this.sigma = sigma;
         this.strength = strength;
@@ -84,6 +86,24 @@ public final class LineCatalog {
         return label[j];
     }
 
+    /**
+     * @param j line index
+     * @return whether the line was declared a blend, which may explain several peaks
+     */
+    public boolean isBlend(int j) {
+        return blend[j];
+    }
+
+    /** @return the blend flags, or null when no line is a blend */
+    boolean[] blends() {
+        for (boolean b : blend) {
+            if (b) {
+                return blend;
+            }
+        }
+        return null;
+    }
+
     /** @return the distinct species, in the order first added */
     public List<Species> speciesList() {
         return speciesList;
@@ -117,7 +137,7 @@ public final class LineCatalog {
             moved[j] = wavelength[j] * (1 + redshift);
             movedSigma[j] = sigma[j] * (1 + redshift);
         }
-        return new LineCatalog(moved, movedSigma, strength, species, label, speciesList);
+        return new LineCatalog(moved, movedSigma, strength, species, label, blend, speciesList);
     }
 
     /**
@@ -135,7 +155,7 @@ public final class LineCatalog {
                 throw new IllegalArgumentException("offset " + metres + " m moves line " + j + " below zero");
             }
         }
-        return new LineCatalog(moved, sigma, strength, species, label, speciesList);
+        return new LineCatalog(moved, sigma, strength, species, label, blend, speciesList);
     }
 
     /** Collects lines; not thread-safe. */
@@ -146,6 +166,7 @@ public final class LineCatalog {
         private double[] strength = new double[64];
         private int[] species = new int[64];
         private String[] label = new String[64];
+        private boolean[] blend = new boolean[64];
         private int size;
 
         private Builder() {
@@ -161,6 +182,27 @@ public final class LineCatalog {
          * @return this builder
          */
         public Builder add(Species s, double vacuumMetres, double sigmaMetres, double expected, String name) {
+            return add(s, vacuumMetres, sigmaMetres, expected, name, false);
+        }
+
+        /**
+         * Adds a line that may explain several peaks: an unresolved blend or multiplet, whose parts
+         * an instrument may show as separate peaks. Parameters as for
+         * {@link #add(Species, double, double, double, String)}.
+         *
+         * @param s            species
+         * @param vacuumMetres vacuum wavelength in metres
+         * @param sigmaMetres  standard uncertainty in metres
+         * @param expected     expected intensity, or NaN
+         * @param name         label, or null
+         * @return this builder
+         */
+        public Builder addBlend(Species s, double vacuumMetres, double sigmaMetres, double expected, String name) {
+            return add(s, vacuumMetres, sigmaMetres, expected, name, true);
+        }
+
+        private Builder add(Species s, double vacuumMetres, double sigmaMetres, double expected, String name,
+                boolean blended) {
             Objects.requireNonNull(s, "species");
             if (!(vacuumMetres > 0) || Double.isInfinite(vacuumMetres)) {
                 throw new IllegalArgumentException("line " + size + ": wavelength must be finite and positive, got "
@@ -181,6 +223,7 @@ public final class LineCatalog {
                 strength = Arrays.copyOf(strength, capacity);
                 species = Arrays.copyOf(species, capacity);
                 label = Arrays.copyOf(label, capacity);
+                blend = Arrays.copyOf(blend, capacity);
             }
             int index = speciesList.indexOf(s);
             if (index < 0) {
@@ -192,6 +235,7 @@ public final class LineCatalog {
             strength[size] = expected;
             species[size] = index;
             label[size] = name;
+            blend[size] = blended;
             size++;
             return this;
         }
@@ -217,6 +261,7 @@ public final class LineCatalog {
             double[] st = new double[size];
             int[] sp = new int[size];
             String[] lb = new String[size];
+            boolean[] bl = new boolean[size];
             for (int k = 0; k < size; k++) {
                 int j = order[k];
                 w[k] = wavelength[j];
@@ -227,8 +272,9 @@ public final class LineCatalog {
                 st[k] = m == 0 ? 1 : strength[j] > 0 ? strength[j] / m : Math.max(1e-6, minPositive(species[j]) / m);
                 sp[k] = species[j];
                 lb[k] = label[j];
+                bl[k] = blend[j];
             }
-            return new LineCatalog(w, u, st, sp, lb, Collections.unmodifiableList(new ArrayList<>(speciesList)));
+            return new LineCatalog(w, u, st, sp, lb, bl, Collections.unmodifiableList(new ArrayList<>(speciesList)));
         }
 
         private double minPositive(int s) {

@@ -100,6 +100,25 @@ class IdentifierTest {
     }
 
     @Test
+    void aDeclaredBlendMayExplainSeveralPeaks() {
+        // Two peaks 2 pm either side of a blended line both take it; an ordinary line beside it
+        // still serves one peak only.
+        LineCatalog lines = LineCatalog.builder()
+                .addBlend(Species.parse("H I"), 656.470e-9, 0, 1, "multiplet")
+                .add(Species.parse("H I"), 656.480e-9, 0, 1, "single").build();
+        PeakList peaks = PeakList.ofVacuumMetres(new double[] {656.468e-9, 656.472e-9, 656.479e-9, 656.481e-9}, null);
+        Identification result = Identifier.of(Tolerance.absolute(0.005e-9)).identify(peaks, lines);
+        assertEquals("multiplet", lines.label(result.line(0)));
+        assertEquals("multiplet", lines.label(result.line(1)));
+        int single = 0;
+        for (int i = 2; i < 4; i++) {
+            single += result.line(i) >= 0 && lines.label(result.line(i)).equals("single") ? 1 : 0;
+        }
+        assertEquals(1, single, "the ordinary line explains one peak");
+        assertTrue(lines.isBlend(result.line(0)));
+    }
+
+    @Test
     void aPeakWithoutCandidatesDoesNotSplitAComponent() {
         // Regression: peaks A and C both reach the one line, B between them reaches nothing
         // (tiny uncertainty). The line must still go to one peak only.
