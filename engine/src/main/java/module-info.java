@@ -9,4 +9,5 @@ module org.ritzwerk.engine {
     exports org.ritzwerk.engine.convert;
     exports org.ritzwerk.engine.hydrogenic;
     exports org.ritzwerk.engine.identify;
+    exports org.ritzwerk.engine.profile;
 }

@@ -1,0 +1,177 @@
+package org.ritzwerk.engine.profile;
+
+/**
+ * The Faddeeva function {@code w(z) = exp(-z^2) erfc(-i z)} in the upper half-plane
+ * ({@code Im z >= 0}), by the rational approximation of J. A. C. Weideman, "Computation of the
+ * complex error function", SIAM J. Numer. Anal. 31, 1497-1518 (1994), with N = 32 terms:
+ * <pre>
+ *   w(z) = 2 p(Z) / (L - i z)^2 + (1 / sqrt(pi)) / (L - i z),   Z = (L + i z) / (L - i z),
+ * </pre>
+ * L = sqrt(N / sqrt 2) and p the polynomial whose coefficients are the discrete Fourier
+ * coefficients of {@code exp(-t^2) (L^2 + t^2)} at {@code t = L tan(theta / 2)}, computed once.
+ * Accuracy, checked against mpmath at 40+ digits in {@code FaddeevaTest}: better than 1e-10
+ * relative over |x| &lt;= 1000, 0 &lt;= y &lt;= 1000 (the issue's requirement is 1e-6). Below
+ * the real axis {@code w(z) = 2 exp(-z^2) - w(-z)} is used. Stateless and thread-safe; the
+ * coefficient table is a constant computed at class initialisation from the formula, not
+ * data. For |z| &gt; 8 the Laplace continued fraction
+ * {@code w(z) = (i / sqrt(pi)) / (z - (1/2) / (z - 1 / (z - (3/2) / (z - ...))))} is used instead
+ * (W. Gautschi, SIAM J. Numer. Anal. 7, 187 (1970)): it keeps the small real part far out in
+ * the wings (the Lorentzian wing of a Voigt profile) to full relative accuracy, where the
+ * rational approximation's absolute error of about 1e-15 would dominate it. Within 1e-5 of the
+ * real axis (and |z| &lt;= 8) the real part comes from the Taylor series about the axis for the
+ * same reason; the test finds the real part within 2e-8 relative everywhere it is above 1e-300.
+ */
+public final class Faddeeva {
+
+    private static final int N = 32;
+    private static final double L = Math.sqrt(N / Math.sqrt(2));
+    private static final double INV_SQRT_PI = 1 / Math.sqrt(Math.PI);
+    /** Polynomial coefficients, highest degree first (Weideman's a, flipped). */
+    private static final double[] A = coefficients();
+
+    private Faddeeva() {
+    }
+
+    private static double[] coefficients() {
+        int m = 2 * N;
+        int m2 = 2 * m;
+        // f at t_k = L tan(theta_k / 2), theta_k = k pi / M for k = -M+1 .. M-1, with f = 0 prepended.
+        double[] f = new double[m2];
+        f[0] = 0;
+        for (int k = -m + 1; k <= m - 1; k++) {
+            double t = L * Math.tan(k * Math.PI / m / 2);
+            f[k + m] = Math.exp(-t * t) * (L * L + t * t);
+        }
+        // fftshift, then the real part of the DFT, divided by 2M.
+        double[] shifted = new double[m2];
+        for (int i = 0; i < m2; i++) {
+            shifted[i] = f[(i + m2 / 2) % m2];
+        }
+        double[] a = new double[N + 1];
+        for (int k = 0; k <= N; k++) {
+            double sum = 0;
+            for (int j = 0; j < m2; j++) {
+                sum += shifted[j] * Math.cos(2 * Math.PI * k * j / m2);
+            }
+            a[k] = sum / m2;
+        }
+        // Keep a(2 .. N+1) (1-based), flipped: highest degree first.
+        double[] flipped = new double[N];
+        for (int k = 0; k < N; k++) {
+            flipped[k] = a[N - k];
+        }
+        return flipped;
+    }
+
+    /**
+     * @param x real part
+     * @param y imaginary part
+     * @return {re w(z), im w(z)} for z = x + i y
+     * @throws IllegalArgumentException for non-finite input
+     */
+    public static double[] w(double x, double y) {
+        double[] out = new double[2];
+        w(x, y, out);
+        return out;
+    }
+
+    /**
+     * Allocation-free form of {@link #w(double, double)}.
+     *
+     * @param x   real part
+     * @param y   imaginary part
+     * @param out receives {re w, im w}
+     */
+    public static void w(double x, double y, double[] out) {
+        if (!Double.isFinite(x) || !Double.isFinite(y)) {
+            throw new IllegalArgumentException("the Faddeeva function needs a finite argument, got " + x + " + " + y + "i");
+        }
+        if (y < 0) {
+            // w(z) = 2 exp(-z^2) - w(-z), -z in the upper half-plane.
+            upper(-x, -y, out);
+            double re = x * x - y * y;
+            double im = 2 * x * y;
+            double e = Math.exp(-re);
+            out[0] = 2 * e * Math.cos(-im) - out[0];
+            out[1] = 2 * e * Math.sin(-im) - out[1];
+            return;
+        }
+        upper(x, y, out);
+    }
+
+    /** Beyond this |z| the continued fraction is used. */
+    private static final double FAR = 8;
+    /** Terms of the continued fraction, enough for 1e-14 beyond {@link #FAR}. */
+    private static final int TERMS = 40;
+
+    private static void upper(double x, double y, double[] out) {
+        if (x * x + y * y > FAR * FAR) {
+            // t = z - (k/2) / t, from the deepest term up; w = (i / sqrt(pi)) / t.
+            double tr = x;
+            double ti = y;
+            for (int k = TERMS; k >= 1; k--) {
+                double d = tr * tr + ti * ti;
+                tr = x - 0.5 * k * tr / d;
+                ti = y + 0.5 * k * ti / d;
+            }
+            double d = tr * tr + ti * ti;
+            // i / t = i (tr - i ti) / d = (ti + i tr) / d
+            out[0] = INV_SQRT_PI * ti / d;
+            out[1] = INV_SQRT_PI * tr / d;
+            if (y < 1) {
+                // Near the real axis the truncated fraction misses the exponentially small
+                // exp(-z^2) that the real part is made of when y is tiny (the Gaussian core's far
+                // reach); it is added back. Here x^2 - y^2 > 63, so it cannot disturb the rest.
+                double e = Math.exp(-(x * x - y * y));
+                out[0] += e * Math.cos(2 * x * y);
+                out[1] -= e * Math.sin(2 * x * y);
+            }
+            return;
+        }
+        if (y < NEAR_AXIS) {
+            // Within 1e-5 of the real axis the real part can fall to exp(-x^2) (1e-28 at x = 8),
+            // far below the rational form's absolute error. It is taken from the Taylor series
+            // about the real axis instead, where Re w(x) = exp(-x^2) exactly and
+            // d/dy Re w = (2 / sqrt pi) (2 x D(x) - 1), D the Dawson function
+            // (D = (sqrt pi / 2) Im w(x), large and accurate); the next term is
+            // -(2x^2 - 1) exp(-x^2) y^2, and the one after is below 1e-10 relative here.
+            rational(x, 0, out);
+            double imOnAxis = out[1];
+            rational(x, y, out);
+            double gauss = Math.exp(-x * x);
+            out[0] = gauss * (1 - (2 * x * x - 1) * y * y) + y * 2 * INV_SQRT_PI * (x * imOnAxis / INV_SQRT_PI - 1);
+            return;
+        }
+        rational(x, y, out);
+    }
+
+    /** Below this imaginary part the real part comes from the series about the real axis. */
+    private static final double NEAR_AXIS = 1e-5;
+
+    private static void rational(double x, double y, double[] out) {
+        // iz = -y + i x; L - iz = (L + y) - i x; L + iz = (L - y) + i x.
+        double dr = L + y;
+        double di = -x;
+        double nr = L - y;
+        double ni = x;
+        double den = dr * dr + di * di;
+        // Z = (L + iz) / (L - iz)
+        double zr = (nr * dr + ni * di) / den;
+        double zi = (ni * dr - nr * di) / den;
+        // p(Z) by Horner.
+        double pr = A[0];
+        double pi = 0;
+        for (int k = 1; k < N; k++) {
+            double tr = pr * zr - pi * zi + A[k];
+            pi = pr * zi + pi * zr;
+            pr = tr;
+        }
+        // 1 / (L - iz) and 1 / (L - iz)^2.
+        double ir = dr / den;
+        double ii = -di / den;
+        double i2r = ir * ir - ii * ii;
+        double i2i = 2 * ir * ii;
+        out[0] = 2 * (pr * i2r - pi * i2i) + INV_SQRT_PI * ir;
+        out[1] = 2 * (pr * i2i + pi * i2r) + INV_SQRT_PI * ii;
+    }
+}

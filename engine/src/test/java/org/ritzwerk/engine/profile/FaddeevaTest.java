@@ -1,0 +1,55 @@
+package org.ritzwerk.engine.profile;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.testing.Golden;
+
+/**
+ * The Faddeeva function against {@code golden/faddeeva.csv} (mpmath at 40+ digits, made by
+ * {@code make_faddeeva_golden.py}): the complex value to 1e-10 relative, and its real part (the
+ * Voigt function) to 1e-6 relative wherever it is above 1e-300.
+ */
+class FaddeevaTest {
+
+    @Test
+    void agreesWithMpmath() {
+        double worstComplex = 0;
+        double worstReal = 0;
+        int rows = 0;
+        for (Map<String, String> row : Golden.rows("faddeeva.csv")) {
+            double x = Double.parseDouble(row.get("x"));
+            double y = Double.parseDouble(row.get("y"));
+            double re = Double.parseDouble(row.get("re_w"));
+            double im = Double.parseDouble(row.get("im_w"));
+            double[] w = Faddeeva.w(x, y);
+            double complexError = Math.hypot(w[0] - re, w[1] - im) / Math.hypot(re, im);
+            worstComplex = Math.max(worstComplex, complexError);
+            assertTrue(complexError <= 1e-10, row + ": " + w[0] + " " + w[1] + " (" + complexError + ")");
+            if (Math.abs(re) > 1e-300) {
+                double realError = Math.abs(w[0] - re) / Math.abs(re);
+                worstReal = Math.max(worstReal, realError);
+                assertTrue(realError <= 1e-6, row + ": real part " + w[0] + " (" + realError + ")");
+            }
+            rows++;
+        }
+        assertTrue(rows > 300, "rows " + rows);
+        System.out.println("Faddeeva: worst complex error " + worstComplex + ", worst real-part error " + worstReal);
+    }
+
+    @Test
+    void symmetriesHold() {
+        // w(-conj z) = conj w(z), and w(0) = 1 (common practice).
+        double[] a = Faddeeva.w(2.5, 0.7);
+        double[] b = Faddeeva.w(-2.5, 0.7);
+        assertEquals(a[0], b[0], 1e-15);
+        assertEquals(a[1], -b[1], 1e-15);
+        assertEquals(1, Faddeeva.w(0, 0)[0], 1e-13);
+        double[] lower = Faddeeva.w(0.3, -0.2);
+        assertTrue(Double.isFinite(lower[0]) && Double.isFinite(lower[1]));
+        assertThrows(IllegalArgumentException.class, () -> Faddeeva.w(Double.NaN, 1));
+    }
+}
