@@ -11,6 +11,9 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.profile.Broadening;
+import org.ritzwerk.engine.profile.Faddeeva;
+import org.ritzwerk.engine.profile.Profiles;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.quantity.Wavelength;
@@ -47,5 +50,24 @@ class UserGuideTest {
         assertEquals(468.57, airNm, 0.01);
         double einsteinA = table.einsteinA(0);                         // s^-1, Z^4 times hydrogen's
         assertEquals(16 * 8.9860e6, einsteinA, 0.01 * 16 * 8.9860e6);
+    }
+
+    @Test
+    void aVoigtProfileFromTemperatureAndDecayRates() {
+        // H-alpha at 456.81 THz from hydrogen atoms at 5000 K; natural width of n = 3 -> 2
+        // from rates of about 1e8 s^-1 (illustrative round numbers).
+        double nu = 456.81e12;
+        double mass = 1.00783 * PhysicalConstants.ATOMIC_MASS_CONSTANT.value();
+        double gaussian = Broadening.dopplerFwhm(nu, 5000, mass);          // Hz, about 23 GHz (0.033 nm)
+        double lorentz = Broadening.naturalFwhm(1.0e8, 0.6e8);             // Hz, about 25 MHz
+        double peak = Profiles.voigt(0, gaussian, lorentz);                // per Hz, unit area
+        double width = Profiles.voigtFwhm(gaussian, lorentz);
+
+        assertEquals(23.0e9, gaussian, 0.1e9);
+        assertEquals(25.5e6, lorentz, 0.1e6);
+        assertEquals(peak / 2, Profiles.voigt(width / 2, gaussian, lorentz), 1e-3 * peak);
+        double[] w = Faddeeva.w(2.5, 0.7);                                  // {Re, Im} of w(2.5 + 0.7i)
+        assertEquals(0.07508765293733201, w[0], 1e-12);                     // scipy.special.wofz 1.10.1
+        assertEquals(0.21954582524890132, w[1], 1e-12);
     }
 }

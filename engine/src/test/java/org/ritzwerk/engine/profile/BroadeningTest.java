@@ -1,0 +1,44 @@
+package org.ritzwerk.engine.profile;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.quicktheories.QuickTheory.qt;
+import static org.quicktheories.generators.SourceDSL.doubles;
+
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.constants.PhysicalConstants;
+
+/** Doppler and natural widths against the usual handbook forms. */
+class BroadeningTest {
+
+    private static final double U = PhysicalConstants.ATOMIC_MASS_CONSTANT.value();
+
+    @Test
+    void dopplerWidthFollowsTheHandbookCoefficient() {
+        // FWHM / nu = 7.162e-7 sqrt(T / A), T in K and A the mass in u (the usual handbook form;
+        // coefficient from memory, to four digits).
+        qt().withFixedSeed(11L).withExamples(30)
+                .forAll(doubles().between(1e13, 3e15), doubles().between(1, 1e6), doubles().between(1, 250))
+                .checkAssert((nu, t, a) -> assertEquals(7.162e-7 * Math.sqrt(t / a) * nu,
+                        Broadening.dopplerFwhm(nu, t, a * U), 2e-4 * 7.162e-7 * Math.sqrt(t / a) * nu));
+    }
+
+    @Test
+    void naturalWidthOfLymanAlphaIsAbout100Megahertz() {
+        // A(2p -> 1s) = 6.2649e8 s^-1 (Wiese & Fuhr 2009), ground state stable: 99.71 MHz.
+        assertEquals(99.71e6, Broadening.naturalFwhm(6.2649e8, 0), 0.01e6);
+        // Both levels decaying add their rates (common practice).
+        assertEquals((1e8 + 3e7) / (2 * Math.PI), Broadening.naturalFwhm(1e8, 3e7), 1e-6);
+    }
+
+    @Test
+    void refusesNonPhysicalArguments() {
+        assertEquals("temperature must be finite and positive, got -5.0 K",
+                assertThrows(IllegalArgumentException.class, () -> Broadening.dopplerFwhm(1e15, -5, U)).getMessage());
+        assertEquals("emitter mass must be finite and positive, got NaN kg",
+                assertThrows(IllegalArgumentException.class, () -> Broadening.dopplerFwhm(1e15, 300, Double.NaN))
+                        .getMessage());
+        assertEquals("lower-level decay rate must be finite and not negative, got -1.0 s^-1",
+                assertThrows(IllegalArgumentException.class, () -> Broadening.naturalFwhm(1e8, -1)).getMessage());
+    }
+}
