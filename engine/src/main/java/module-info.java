@@ -9,5 +9,6 @@ module org.ritzwerk.engine {
     exports org.ritzwerk.engine.convert;
     exports org.ritzwerk.engine.hydrogenic;
     exports org.ritzwerk.engine.identify;
+    exports org.ritzwerk.engine.plasma;
     exports org.ritzwerk.engine.profile;
 }

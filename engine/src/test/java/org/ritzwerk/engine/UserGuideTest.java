@@ -11,6 +11,7 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.plasma.BoltzmannPlot;
 import org.ritzwerk.engine.profile.Broadening;
 import org.ritzwerk.engine.profile.Faddeeva;
 import org.ritzwerk.engine.profile.Profiles;
@@ -69,5 +70,27 @@ class UserGuideTest {
         double[] w = Faddeeva.w(2.5, 0.7);                                  // {Re, Im} of w(2.5 + 0.7i)
         assertEquals(0.07508765293733201, w[0], 1e-12);                     // scipy.special.wofz 1.10.1
         assertEquals(0.21954582524890132, w[1], 1e-12);
+    }
+
+    @Test
+    void anExcitationTemperatureFromLineIntensities() {
+        // Invented photon counts of four lines from a gas at 7000 K, 3 % uncertain.
+        double ev = 1.602176634e-19;
+        double[] upperEnergyJ = {10.2 * ev, 12.09 * ev, 12.75 * ev, 13.05 * ev};
+        double[] upperWeight = {8, 18, 32, 50};
+        double[] einsteinA = {4.7e8, 5.6e7, 8.4e6, 2.5e6};
+        double[] intensity = new double[4];
+        double[] intensitySigma = new double[4];
+        for (int i = 0; i < 4; i++) {
+            intensity[i] = 1e20 * upperWeight[i] * einsteinA[i]
+                    * Math.exp(-upperEnergyJ[i] / (PhysicalConstants.K * 7000));
+            intensitySigma[i] = 0.03 * intensity[i];
+        }
+
+        BoltzmannPlot.Fit fit = BoltzmannPlot.fit(BoltzmannPlot.Counting.PHOTONS, intensity, intensitySigma,
+                upperEnergyJ, upperWeight, einsteinA, null);
+
+        assertEquals(7000, fit.temperature(), 1e-6);
+        assertEquals(4, fit.lines());
     }
 }
