@@ -11,4 +11,5 @@ module org.ritzwerk.engine {
     exports org.ritzwerk.engine.identify;
     exports org.ritzwerk.engine.plasma;
     exports org.ritzwerk.engine.profile;
+    exports org.ritzwerk.engine.synth;
 }

@@ -12,6 +12,9 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.plasma.BoltzmannPlot;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.LineRenderer;
+import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.profile.Broadening;
 import org.ritzwerk.engine.profile.Faddeeva;
 import org.ritzwerk.engine.profile.Profiles;
@@ -92,5 +95,32 @@ class UserGuideTest {
 
         assertEquals(7000, fit.temperature(), 1e-6);
         assertEquals(4, fit.lines());
+    }
+
+    @Test
+    void linesIntoDetectorPixels() {
+        // An invented pair of lines near 656.5 nm, Doppler and natural widths in nm.
+        double[] centresNm = {656.2025, 656.9};
+        double[] fluxes = {1000, 250};
+        double[] gaussianFwhmNm = {0.02, 0.02};
+        double[] lorentzFwhmNm = {0.001, 0.003};
+
+        PixelGrid grid = PixelGrid.linear(655, 658, 600);
+        double[] pixels = new double[grid.pixels()];
+        new LineRenderer(grid, Instrument.ofResolvingPower(20_000), LineRenderer.DEFAULT_WINDOW)
+                .render(centresNm, fluxes, gaussianFwhmNm, lorentzFwhmNm, pixels);
+
+        double total = 0;
+        for (double p : pixels) {
+            total += p;
+        }
+        double bound = 1000 * LineRenderer.truncationBound(Math.hypot(0.02, 656.2025 / 20_000), 0.001, 0.5)
+                + 250 * LineRenderer.truncationBound(Math.hypot(0.02, 656.9 / 20_000), 0.003, 0.5);
+        assertEquals(1250, total, bound + 1e-6);
+        int brightest = 0;
+        for (int p = 1; p < pixels.length; p++) {
+            brightest = pixels[p] > pixels[brightest] ? p : brightest;
+        }
+        assertEquals(240, brightest);                                    // 656.200-656.205 nm
     }
 }

@@ -1,0 +1,176 @@
+package org.ritzwerk.engine.synth;
+
+import org.ritzwerk.engine.profile.Profiles;
+
+/**
+ * Renders lines with Voigt profiles into the pixels of a {@link PixelGrid}: each pixel receives
+ * the line flux that falls between its edges (the integral of the profile over the pixel, not
+ * a sample at its centre). Integration is Gauss-Legendre with 8 nodes on pieces no wider than a
+ * quarter of the larger of the line's FWHM and the distance from its centre, which keeps every
+ * pixel's share within about 1e-10 of its exact value.
+ *
+ * <p>Each line is rendered only within a window of {@code window} Voigt FWHMs either side of its
+ * centre; the flux beyond is not rendered. The fraction lost is at most
+ * {@link #truncationBound(double, double, double)}: for the default window of 50 FWHMs a pure
+ * Lorentzian loses 0.6 %, a pure Gaussian nothing measurable. Widen the window where the far
+ * Lorentzian wings matter.
+ */
+public final class LineRenderer {
+
+    /** The default half-width of the rendering window, in Voigt FWHMs. */
+    public static final double DEFAULT_WINDOW = 50;
+
+    private static final int NODES = 8;
+    private static final double[] X = new double[NODES];
+    private static final double[] W = new double[NODES];
+
+    static {
+        // Gauss-Legendre nodes and weights on [-1, 1] by Newton's method on P_8 (common practice).
+        for (int i = 0; i < NODES; i++) {
+            double x = Math.cos(Math.PI * (i + 0.75) / (NODES + 0.5));
+            double derivative = 0;
+            for (int iteration = 0; iteration < 100; iteration++) {
+                double p0 = 1;
+                double p1 = x;
+                for (int k = 2; k <= NODES; k++) {
+                    double p2 = ((2 * k - 1) * x * p1 - (k - 1) * p0) / k;
+                    p0 = p1;
+                    p1 = p2;
+                }
+                derivative = NODES * (x * p1 - p0) / (x * x - 1);
+                double step = p1 / derivative;
+                x -= step;
+                if (Math.abs(step) < 1e-16) {
+                    break;
+                }
+            }
+            X[i] = x;
+            W[i] = 2 / ((1 - x * x) * derivative * derivative);
+        }
+    }
+
+    private final PixelGrid grid;
+    private final Instrument instrument;
+    private final double window;
+
+    /**
+     * @param grid       the pixels
+     * @param instrument the spectrometer's response, {@link Instrument#ideal()} for none
+     * @param window     half-width of the rendering window in Voigt FWHMs, at least 1
+     */
+    public LineRenderer(PixelGrid grid, Instrument instrument, double window) {
+        if (!(window >= 1) || Double.isInfinite(window)) {
+            throw new IllegalArgumentException("the rendering window must be a finite number of FWHMs, at least 1, got "
+                    + window);
+        }
+        this.grid = grid;
+        this.instrument = instrument;
+        this.window = window;
+    }
+
+    /**
+     * Adds the lines' pixel fluxes to {@code out}.
+     *
+     * @param position     line centres in the grid's unit
+     * @param flux         integrated line fluxes, finite and not negative
+     * @param gaussianFwhm Gaussian (Doppler) FWHMs before the instrument, not negative
+     * @param lorentzFwhm  Lorentzian FWHMs, not negative; each line needs some width once the
+     *                     instrument's is added
+     * @param out          pixel fluxes, one per pixel, added to
+     * @throws IllegalArgumentException naming the first unusable line and field
+     */
+    public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out) {
+        int n = position.length;
+        if (flux.length != n || gaussianFwhm.length != n || lorentzFwhm.length != n) {
+            throw new IllegalArgumentException("positions, fluxes and widths must have one value per line: "
+                    + n + ", " + flux.length + ", " + gaussianFwhm.length + ", " + lorentzFwhm.length);
+        }
+        if (out.length != grid.pixels()) {
+            throw new IllegalArgumentException("the output needs one value per pixel (" + grid.pixels() + "), got "
+                    + out.length);
+        }
+        for (int i = 0; i < n; i++) {
+            check(i, "position", position[i], true);
+            check(i, "flux", flux[i], false);
+            check(i, "Gaussian FWHM", gaussianFwhm[i], false);
+            check(i, "Lorentzian FWHM", lorentzFwhm[i], false);
+            double g = Math.hypot(gaussianFwhm[i], instrument.fwhmAt(position[i]));
+            if (g == 0 && lorentzFwhm[i] == 0) {
+                throw new IllegalArgumentException("line " + i + " has no width: give a Gaussian or Lorentzian FWHM "
+                        + "or an instrument response");
+            }
+            renderOne(position[i], flux[i], g, lorentzFwhm[i], out);
+        }
+    }
+
+    private static void check(int line, String field, double value, boolean anySign) {
+        if (!Double.isFinite(value) || (!anySign && value < 0)) {
+            throw new IllegalArgumentException("line " + line + ": " + field + " must be finite"
+                    + (anySign ? "" : " and not negative") + ", got " + value);
+        }
+    }
+
+    private void renderOne(double centre, double flux, double g, double l, double[] out) {
+        if (flux == 0) {
+            return;
+        }
+        double fwhm = Profiles.voigtFwhm(g, l);
+        double lo = centre - window * fwhm;
+        double hi = centre + window * fwhm;
+        int pixels = grid.pixels();
+        int first = Math.max(0, grid.firstEdgeAbove(lo) - 1);
+        for (int p = first; p < pixels && grid.edge(p) < hi; p++) {
+            double a = Math.max(grid.edge(p), lo);
+            double b = Math.min(grid.edge(p + 1), hi);
+            if (b <= a) {
+                continue;
+            }
+            double share;
+            if (a < centre && centre < b) {
+                share = integrate(a, centre, centre, g, l, fwhm) + integrate(centre, b, centre, g, l, fwhm);
+            } else {
+                share = integrate(a, b, centre, g, l, fwhm);
+            }
+            out[p] += flux * share;
+        }
+    }
+
+    /** The profile's integral over [a, b], a side of the centre (or touching it). */
+    private static double integrate(double a, double b, double centre, double g, double l, double fwhm) {
+        double nearest = Math.min(Math.abs(a - centre), Math.abs(b - centre));
+        double piece = Math.max(fwhm, nearest) / 4;
+        int pieces = (int) Math.min(1_000_000, Math.ceil((b - a) / piece));
+        double h = (b - a) / pieces;
+        double sum = 0;
+        for (int k = 0; k < pieces; k++) {
+            double mid = a + (k + 0.5) * h;
+            for (int j = 0; j < NODES; j++) {
+                sum += W[j] * Profiles.voigt(mid + 0.5 * h * X[j] - centre, g, l);
+            }
+        }
+        return sum * 0.5 * h;
+    }
+
+    /**
+     * A bound on the fraction of a Voigt line's flux beyond +-halfWidth of its centre: the sum of
+     * the Gaussian's and the Lorentzian's shares beyond +-halfWidth / 2 (a Voigt variate is the
+     * sum of the two, and exceeds halfWidth only if one of them exceeds half of it).
+     *
+     * @param gaussianFwhm Gaussian FWHM
+     * @param lorentzFwhm  Lorentzian FWHM
+     * @param halfWidth    half-width of the window, same unit
+     * @return the bound, 0 .. 1
+     */
+    public static double truncationBound(double gaussianFwhm, double lorentzFwhm, double halfWidth) {
+        double half = halfWidth / 2;
+        double lorentz = lorentzFwhm == 0 ? 0 : 1 - 2 / Math.PI * Math.atan(half / (lorentzFwhm / 2));
+        double gauss = 0;
+        if (gaussianFwhm > 0) {
+            // erfc(u) <= exp(-u^2) for u >= 0 (common practice).
+            double sigma = gaussianFwhm / (2 * Math.sqrt(2 * Math.log(2)));
+            double u = half / (sigma * Math.sqrt(2));
+            gauss = Math.exp(-u * u);
+        }
+        return Math.min(1, lorentz + gauss);
+    }
+}
