@@ -1,6 +1,7 @@
 package org.ritzwerk.engine;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
@@ -12,7 +13,9 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.plasma.BoltzmannPlot;
+import org.ritzwerk.engine.synth.Continuum;
 import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.Noise;
 import org.ritzwerk.engine.synth.LineRenderer;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.profile.Broadening;
@@ -122,5 +125,14 @@ class UserGuideTest {
             brightest = pixels[p] > pixels[brightest] ? p : brightest;
         }
         assertEquals(240, brightest);                                    // 656.200-656.205 nm
+
+        double scale = 1e-9;                                            // invented: counts per W m^-2 sr^-1
+        Continuum.render(grid, nm -> 1e-9 * Continuum.planckPerWavelength(nm * 1e-9, 4500) * scale, pixels);
+        double[] clean = pixels.clone();
+        Noise.apply(pixels, 4.0, 2026L, pixels);                        // Poisson + 4-count read noise
+        double[] again = clean.clone();
+        Noise.apply(again, 4.0, 2026L, again);
+        assertEquals(java.util.Arrays.toString(pixels), java.util.Arrays.toString(again));
+        assertTrue(clean[0] > 0);
     }
 }

@@ -20,34 +20,9 @@ public final class LineRenderer {
     /** The default half-width of the rendering window, in Voigt FWHMs. */
     public static final double DEFAULT_WINDOW = 50;
 
-    private static final int NODES = 8;
-    private static final double[] X = new double[NODES];
-    private static final double[] W = new double[NODES];
-
-    static {
-        // Gauss-Legendre nodes and weights on [-1, 1] by Newton's method on P_8 (common practice).
-        for (int i = 0; i < NODES; i++) {
-            double x = Math.cos(Math.PI * (i + 0.75) / (NODES + 0.5));
-            double derivative = 0;
-            for (int iteration = 0; iteration < 100; iteration++) {
-                double p0 = 1;
-                double p1 = x;
-                for (int k = 2; k <= NODES; k++) {
-                    double p2 = ((2 * k - 1) * x * p1 - (k - 1) * p0) / k;
-                    p0 = p1;
-                    p1 = p2;
-                }
-                derivative = NODES * (x * p1 - p0) / (x * x - 1);
-                double step = p1 / derivative;
-                x -= step;
-                if (Math.abs(step) < 1e-16) {
-                    break;
-                }
-            }
-            X[i] = x;
-            W[i] = 2 / ((1 - x * x) * derivative * derivative);
-        }
-    }
+    private static final int NODES = GaussLegendre.NODES;
+    private static final double[] X = GaussLegendre.X;
+    private static final double[] W = GaussLegendre.W;
 
     private final PixelGrid grid;
     private final Instrument instrument;

@@ -1,0 +1,77 @@
+package org.ritzwerk.engine.synth;
+
+import java.util.function.DoubleUnaryOperator;
+import org.ritzwerk.constants.PhysicalConstants;
+
+/**
+ * Continuum emission: Planck's law, and the pixel integral of any smooth continuum density
+ * (flat, blackbody, or the caller's own) over a {@link PixelGrid}.
+ */
+public final class Continuum {
+
+    private static final double H = PhysicalConstants.H;
+    private static final double C = PhysicalConstants.C;
+    private static final double K = PhysicalConstants.K;
+
+    private Continuum() {
+    }
+
+    /**
+     * Planck's law per unit wavelength, B = 2 h c^2 / lambda^5 / (exp(h c / (lambda k T)) - 1).
+     *
+     * @param wavelength  vacuum wavelength in m, positive
+     * @param temperature temperature in K, positive
+     * @return spectral radiance in W m^-3 sr^-1
+     */
+    public static double planckPerWavelength(double wavelength, double temperature) {
+        positive("wavelength", wavelength, "m");
+        positive("temperature", temperature, "K");
+        double x = H * C / (wavelength * K * temperature);
+        return 2 * H * C * C / Math.pow(wavelength, 5) / Math.expm1(x);
+    }
+
+    /**
+     * Planck's law per unit frequency, B = 2 h nu^3 / c^2 / (exp(h nu / (k T)) - 1).
+     *
+     * @param frequency   frequency in Hz, positive
+     * @param temperature temperature in K, positive
+     * @return spectral radiance in W m^-2 Hz^-1 sr^-1
+     */
+    public static double planckPerFrequency(double frequency, double temperature) {
+        positive("frequency", frequency, "Hz");
+        positive("temperature", temperature, "K");
+        double x = H * frequency / (K * temperature);
+        return 2 * H * frequency * frequency * frequency / (C * C) / Math.expm1(x);
+    }
+
+    /**
+     * Adds to each pixel the integral of a continuum density over it (8-node Gauss-Legendre per
+     * pixel; a continuum that changes little across a pixel is integrated to about 1e-12).
+     *
+     * @param grid    the pixels
+     * @param density flux per unit of the grid's axis, as a function of position
+     * @param out     pixel fluxes, one per pixel, added to
+     * @throws IllegalArgumentException when the density is not finite or negative somewhere,
+     *         naming the pixel
+     */
+    public static void render(PixelGrid grid, DoubleUnaryOperator density, double[] out) {
+        if (out.length != grid.pixels()) {
+            throw new IllegalArgumentException("the output needs one value per pixel (" + grid.pixels() + "), got "
+                    + out.length);
+        }
+        for (int p = 0; p < grid.pixels(); p++) {
+            double flux = GaussLegendre.integrate(density, grid.edge(p), grid.edge(p + 1));
+            if (!(Double.isFinite(flux) && flux >= 0)) {
+                throw new IllegalArgumentException("pixel " + p + ": the continuum density gives " + flux
+                        + " between " + grid.edge(p) + " and " + grid.edge(p + 1) + "; it must be finite and not negative");
+            }
+            out[p] += flux;
+        }
+    }
+
+    private static void positive(String what, double value, String unit) {
+        if (!(Double.isFinite(value) && value > 0)) {
+            throw new IllegalArgumentException(what + " must be finite and positive, got " + value + " " + unit);
+        }
+    }
+}

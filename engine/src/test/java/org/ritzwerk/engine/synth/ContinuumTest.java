@@ -1,0 +1,63 @@
+package org.ritzwerk.engine.synth;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.constants.PhysicalConstants;
+
+/** Planck's law against the CODATA 2018 Wien and Stefan-Boltzmann constants. */
+class ContinuumTest {
+
+    @Test
+    void peakFollowsWiensDisplacementLaw() {
+        // b = 2.897771955e-3 m K (CODATA 2018, exact given h, c, k).
+        for (double t : new double[] {300, 5772, 20_000}) {
+            double lo = 0.2e-3 / t;
+            double hi = 10e-3 / t;
+            for (int k = 0; k < 200; k++) {
+                double m1 = lo + (hi - lo) / 3;
+                double m2 = hi - (hi - lo) / 3;
+                if (Continuum.planckPerWavelength(m1, t) < Continuum.planckPerWavelength(m2, t)) {
+                    lo = m1;
+                } else {
+                    hi = m2;
+                }
+            }
+            assertEquals(2.897771955e-3 / t, lo, 1e-7 * lo, "T " + t);
+        }
+    }
+
+    @Test
+    void pixelsAddUpToStefanBoltzmann() {
+        // Integral of B_lambda = sigma T^4 / pi, sigma = 5.670374419e-8 W m^-2 K^-4 (CODATA 2018).
+        double t = 6000;
+        PixelGrid grid = PixelGrid.logarithmic(20e-9, 2e-3, 20_000);
+        double[] out = new double[grid.pixels()];
+        Continuum.render(grid, x -> Continuum.planckPerWavelength(x, t), out);
+        double total = 0;
+        for (double v : out) {
+            total += v;
+        }
+        assertEquals(5.670374419e-8 * Math.pow(t, 4) / Math.PI, total, 1e-8 * total);
+    }
+
+    @Test
+    void perFrequencyAndPerWavelengthAgree() {
+        // B_nu = B_lambda lambda^2 / c (common practice).
+        double lambda = 500e-9;
+        double nu = PhysicalConstants.C / lambda;
+        assertEquals(Continuum.planckPerWavelength(lambda, 4000) * lambda * lambda / PhysicalConstants.C,
+                Continuum.planckPerFrequency(nu, 4000), 1e-12 * Continuum.planckPerFrequency(nu, 4000));
+    }
+
+    @Test
+    void refusesNegativeContinuaAndTemperatures() {
+        PixelGrid grid = PixelGrid.linear(0, 1, 4);
+        assertTrue(assertThrows(IllegalArgumentException.class,
+                () -> Continuum.render(grid, x -> x - 0.5, new double[4])).getMessage().startsWith("pixel 0:"));
+        assertEquals("temperature must be finite and positive, got 0.0 K",
+                assertThrows(IllegalArgumentException.class, () -> Continuum.planckPerWavelength(1e-6, 0)).getMessage());
+    }
+}
