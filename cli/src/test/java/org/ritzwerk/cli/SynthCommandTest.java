@@ -1,0 +1,120 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** {@code ritzwerk synth} end to end, and its spectrum fed back to {@code identify}. */
+class SynthCommandTest {
+
+    private static double[][] columns(String csv) {
+        List<double[]> rows = new ArrayList<>();
+        for (String line : csv.split("\\R")) {
+            if (line.startsWith("#") || line.startsWith("wavelength_nm") || line.isBlank()) {
+                continue;
+            }
+            String[] cells = line.split(",");
+            rows.add(new double[] {Double.parseDouble(cells[0]), Double.parseDouble(cells[1]),
+                Double.parseDouble(cells[2])});
+        }
+        return rows.toArray(new double[0][]);
+    }
+
+    @Test
+    void aSyntheticBalmerSpectrumIsIdentifiedAgain(@TempDir Path dir) throws IOException {
+        CliTest.Run synth = CliTest.run("synth", "--species", "H I", "--from", "400 nm air", "--to", "700 nm air",
+                "--medium", "air", "--temperature", "12000", "--resolving-power", "5000", "--pixels", "12000",
+                "--read-noise", "3", "--seed", "5");
+        assertEquals(0, synth.code(), synth.err());
+        assertTrue(synth.out().startsWith("# ritzwerk-spectrum 1\n# axis: wavelength nm air"), synth.out());
+        double[][] rows = columns(synth.out());
+        assertEquals(12000, rows.length);
+        // Peaks: local maxima of the noisy counts above 2 % of the brightest, centroided over +-4 pixels.
+        double max = 0;
+        for (double[] row : rows) {
+            max = Math.max(max, row[2]);
+        }
+        StringBuilder peaks = new StringBuilder("# ritzwerk-peaks 1\n# id: synth-test\n# title: peaks of a synthetic "
+                + "spectrum\n# source: ritzwerk synth\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
+                + "# medium: air\nposition,uncertainty,intensity\n");
+        int found = 0;
+        for (int p = 8; p < rows.length - 8; p++) {
+            boolean localMax = rows[p][2] > 0.02 * max;
+            for (int q = p - 8; q <= p + 8 && localMax; q++) {
+                localMax = q == p || rows[q][2] < rows[p][2] || (rows[q][2] == rows[p][2] && q > p);
+            }
+            if (localMax) {
+                double sum = 0;
+                double moment = 0;
+                for (int q = p - 4; q <= p + 4; q++) {
+                    sum += rows[q][2];
+                    moment += rows[q][2] * rows[q][0];
+                }
+                peaks.append(String.format(Locale.ROOT, "%.5f,0.005,%.1f%n", moment / sum, sum));
+                found++;
+            }
+        }
+        assertTrue(found >= 4, "peaks found: " + found);
+        Path file = dir.resolve("peaks.csv");
+        Files.writeString(file, peaks, StandardCharsets.UTF_8);
+        CliTest.Run identify = CliTest.run("identify", file.toString(), "--species", "H I", "--tolerance", "0.02 nm");
+        assertEquals(0, identify.code(), identify.err());
+        for (String line : new String[] {"Balmer alpha", "Balmer beta", "Balmer gamma", "Balmer delta"}) {
+            assertTrue(identify.out().contains(line), line + " in\n" + identify.out());
+        }
+        assertTrue(identify.out().contains(found + " peaks: " + found + " matched"), identify.out());
+    }
+
+    @Test
+    void sameSeedSameSpectrumAndTruthAddsUp(@TempDir Path dir) throws IOException {
+        String[] args = {"synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm", "--temperature", "8000",
+            "--pixels", "500", "--seed", "11"};
+        CliTest.Run one = CliTest.run(args);
+        CliTest.Run two = CliTest.run(args);
+        assertEquals(0, one.code(), one.err());
+        assertEquals(one.out(), two.out());
+        String[] other = args.clone();
+        other[other.length - 1] = "12";
+        assertNotEquals(one.out(), CliTest.run(other).out());
+
+        Path truth = dir.resolve("lines.csv");
+        CliTest.Run clean = CliTest.run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
+                "--temperature", "8000", "--pixels", "500", "--no-noise", "--truth", truth.toString());
+        assertEquals(0, clean.code(), clean.err());
+        double total = 0;
+        for (double[] row : columns(clean.out())) {
+            assertEquals(row[1], row[2], 0, "no noise: counts equal the expectation");
+            total += row[1];
+        }
+        // The only line, H-alpha in vacuum at 656.47 nm, well inside: all its counts are in the pixels.
+        List<String> lines = Files.readAllLines(truth, StandardCharsets.UTF_8);
+        String last = lines.get(lines.size() - 1);
+        assertTrue(last.endsWith("H I Balmer alpha"), last);
+        assertEquals(Double.parseDouble(last.split(",")[1]), total, 1e-4 * total);
+    }
+
+    @Test
+    void clearErrors() {
+        CliTest.Run grid = CliTest.run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
+                "--temperature", "8000", "--grid", "cubic");
+        assertEquals(2, grid.code());
+        assertTrue(grid.err().contains("--grid must be linear or log, got 'cubic'"), grid.err());
+        CliTest.Run empty = CliTest.run("synth", "--species", "H I", "--from", "700 nm", "--to", "800 nm",
+                "--temperature", "8000");
+        assertEquals(2, empty.code());
+        assertTrue(empty.err().contains("no line of H I falls between 700 nm and 800 nm"), empty.err());
+        CliTest.Run cold = CliTest.run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
+                "--temperature", "-3");
+        assertTrue(cold.err().contains("--temperature must be a positive number of kelvin"), cold.err());
+    }
+}
