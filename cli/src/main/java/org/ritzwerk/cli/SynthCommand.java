@@ -64,6 +64,15 @@ final class SynthCommand implements Callable<Integer> {
             description = "Excitation and kinetic temperature of the emitters, kelvin.")
     double temperature;
 
+    @Option(names = "--velocity", paramLabel = "KM_S", defaultValue = "0",
+            description = {"Line-of-sight velocity of the emitters in km/s, positive away: every line is",
+                "shifted by the relativistic Doppler factor sqrt((1 + v/c) / (1 - v/c)). Default: ${DEFAULT-VALUE}."})
+    double velocity;
+
+    @Option(names = "--collisional-width", paramLabel = "NM", defaultValue = "0",
+            description = "Lorentzian FWHM in nm given to every line (pressure broadening). Default: ${DEFAULT-VALUE}.")
+    double collisionalWidth;
+
     @Option(names = "--resolving-power", paramLabel = "R", defaultValue = "10000",
             description = "Instrument resolving power lambda / FWHM (Gaussian response). Default: ${DEFAULT-VALUE}.")
     double resolvingPower;
@@ -119,6 +128,13 @@ final class SynthCommand implements Callable<Integer> {
         if (!(peakCounts > 0) || Double.isInfinite(peakCounts)) {
             throw new IllegalArgumentException("--peak-counts must be a finite positive number, got " + peakCounts);
         }
+        if (!(Math.abs(velocity) < 0.1 * PhysicalConstants.C / 1e3)) {
+            throw new IllegalArgumentException("--velocity must be below a tenth of the speed of light (29979 km/s), got "
+                    + velocity);
+        }
+        if (!(collisionalWidth >= 0) || Double.isInfinite(collisionalWidth)) {
+            throw new IllegalArgumentException("--collisional-width must be a finite width >= 0 nm, got " + collisionalWidth);
+        }
         Medium axisMedium = switch (medium) {
             case "air" -> Medium.air();
             case "vacuum" -> Medium.vacuum();
@@ -140,14 +156,14 @@ final class SynthCommand implements Callable<Integer> {
         };
 
         // Lines just beyond the ends still spill light into the edge pixels.
-        double margin = 50 * hi / resolvingPower;
+        double margin = 50 * (hi / resolvingPower + collisionalWidth);
         Scene scene = new Scene();
         for (Ions.Ion ion : ions.resolve()) {
             addLines(scene, ion, axisMedium, lo - margin, hi + margin);
         }
         double[] expected = new double[grid.pixels()];
         new LineRenderer(grid, Instrument.ofResolvingPower(resolvingPower), LineRenderer.DEFAULT_WINDOW)
-                .render(scene.positions(), scene.fluxes(), scene.gaussianWidths(), new double[scene.size], expected);
+                .render(scene.positions(), scene.fluxes(), scene.gaussianWidths(), lorentzWidths(scene.size), expected);
         double brightest = 0;
         for (double v : expected) {
             brightest = Math.max(brightest, v);
@@ -169,6 +185,12 @@ final class SynthCommand implements Callable<Integer> {
             writeTruth(scene, scale);
         }
         return 0;
+    }
+
+    private double[] lorentzWidths(int lines) {
+        double[] widths = new double[lines];
+        Arrays.fill(widths, collisionalWidth);
+        return widths;
     }
 
     /** Lines of all species in the columns the renderer takes. */
@@ -216,8 +238,9 @@ final class SynthCommand implements Callable<Integer> {
         for (int n = 1; n <= nMax; n++) {
             partition += 2.0 * n * n * Math.exp(-(model.energy(n, 0, 1) - ground) / kT);
         }
-        double vacuumLo = Medium.vacuum().fromVacuum(axisMedium.toVacuum(Math.max(loNm, 1e-3) * 1e-9));
-        double vacuumHi = axisMedium.toVacuum(hiNm * 1e-9);
+        double doppler = dopplerFactor();
+        double vacuumLo = axisMedium.toVacuum(Math.max(loNm, 1e-3) * 1e-9) / doppler;
+        double vacuumHi = axisMedium.toVacuum(hiNm * 1e-9) / doppler;
         LineTable table = generator.multiplets(nMax, PhysicalConstants.C / vacuumHi, PhysicalConstants.C / vacuumLo);
         double mass = model.nucleus().massKg() + (model.nucleus().z() - ion.species().charge())
                 * PhysicalConstants.ELECTRON_MASS.value();
@@ -226,10 +249,16 @@ final class SynthCommand implements Callable<Integer> {
             // Photons per second per emitter: population g exp(-E / kT) / Z times A.
             double photons = table.upperWeight(i) * table.einsteinA(i) * Math.exp(-(upper - ground) / kT) / partition;
             double nu = table.frequency(i);
-            double positionNm = axisMedium.fromVacuum(PhysicalConstants.C / nu) * 1e9;
+            double positionNm = axisMedium.fromVacuum(doppler * PhysicalConstants.C / nu) * 1e9;
             double dopplerNm = positionNm * Broadening.dopplerFwhm(nu, temperature, mass) / nu;
             scene.add(positionNm, photons, dopplerNm, ion.species().notation() + " " + table.seriesName(i));
         }
+    }
+
+    /** The relativistic Doppler factor on wavelengths, observed over emitted. */
+    private double dopplerFactor() {
+        double beta = velocity * 1e3 / PhysicalConstants.C;
+        return Math.sqrt((1 + beta) / (1 - beta));
     }
 
     private void writeSpectrum(PixelGrid grid, double[] expected, double[] counts) throws IOException {
@@ -241,6 +270,8 @@ final class SynthCommand implements Callable<Integer> {
         w.println("# species: " + String.join(",", ions.species) + " (" + ions.model + " levels, n <= " + nMax + ")");
         w.println("# temperature-k: " + temperature);
         w.println("# resolving-power: " + resolvingPower);
+        w.println("# velocity-km-s: " + velocity);
+        w.println("# collisional-fwhm-nm: " + collisionalWidth);
         w.println("# noise: " + (noNoise ? "none" : "poisson, read " + readNoise + " counts, seed " + seed));
         w.println("wavelength_nm,expected_counts,counts");
         for (int p = 0; p < grid.pixels(); p++) {

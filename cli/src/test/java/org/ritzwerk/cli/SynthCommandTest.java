@@ -117,4 +117,35 @@ class SynthCommandTest {
                 "--temperature", "-3");
         assertTrue(cold.err().contains("--temperature must be a positive number of kelvin"), cold.err());
     }
+
+    @Test
+    void velocityShiftsEveryLineByTheDopplerFactor(@TempDir Path dir) throws IOException {
+        // lambda_observed = lambda sqrt((1 + v/c) / (1 - v/c)) (relativistic Doppler; common practice).
+        Path rest = dir.resolve("rest.csv");
+        Path moving = dir.resolve("moving.csv");
+        String[] common = {"synth", "--species", "H I", "--from", "600 nm", "--to", "700 nm", "--temperature", "8000",
+            "--no-noise"};
+        assertEquals(0, CliTest.run(concat(common, "--truth", rest.toString())).code());
+        CliTest.Run run = CliTest.run(concat(common, "--truth", moving.toString(), "--velocity", "-1500",
+                "--collisional-width", "0.05"));
+        assertEquals(0, run.code(), run.err());
+        double beta = -1500e3 / 299_792_458.0;
+        double restNm = Double.parseDouble(lastRow(rest)[0]);
+        double movingNm = Double.parseDouble(lastRow(moving)[0]);
+        assertEquals(restNm * Math.sqrt((1 + beta) / (1 - beta)), movingNm, 1e-9 * restNm);
+        assertTrue(run.out().contains("# velocity-km-s: -1500.0\n# collisional-fwhm-nm: 0.05\n"), run.out());
+        assertTrue(CliTest.run(concat(common, "--velocity", "40000")).err()
+                .contains("--velocity must be below a tenth of the speed of light"));
+    }
+
+    private static String[] lastRow(Path file) throws IOException {
+        List<String> lines = Files.readAllLines(file, StandardCharsets.UTF_8);
+        return lines.get(lines.size() - 1).split(",");
+    }
+
+    private static String[] concat(String[] head, String... tail) {
+        String[] all = java.util.Arrays.copyOf(head, head.length + tail.length);
+        System.arraycopy(tail, 0, all, head.length, tail.length);
+        return all;
+    }
 }
