@@ -140,10 +140,8 @@ final class SynthCommand implements Callable<Integer> {
             case "vacuum" -> Medium.vacuum();
             default -> throw new IllegalArgumentException("--medium must be vacuum or air, got '" + medium + "'");
         };
-        double oneEnd = axisMedium.fromVacuum(PhysicalConstants.C / QuantityText.standard().parseSpectral(from)
-                .toFrequency().inHertz()) * 1e9;
-        double otherEnd = axisMedium.fromVacuum(PhysicalConstants.C / QuantityText.standard().parseSpectral(to)
-                .toFrequency().inHertz()) * 1e9;
+        double oneEnd = axisNanometres(from, axisMedium);
+        double otherEnd = axisNanometres(to, axisMedium);
         double lo = Math.min(oneEnd, otherEnd);
         double hi = Math.max(oneEnd, otherEnd);
         if (!(hi > lo)) {
@@ -185,6 +183,12 @@ final class SynthCommand implements Callable<Integer> {
             writeTruth(scene, scale);
         }
         return 0;
+    }
+
+    /** A --from or --to value (any spectral unit) as a wavelength in nm in the axis medium. */
+    private static double axisNanometres(String quantity, Medium axisMedium) {
+        double hertz = QuantityText.standard().parseSpectral(quantity).toFrequency().inHertz();
+        return axisMedium.fromVacuum(PhysicalConstants.C / hertz) * 1e9;
     }
 
     private double[] lorentzWidths(int lines) {
