@@ -50,7 +50,7 @@ public final class Continuum {
      *
      * @param grid    the pixels
      * @param density flux per unit of the grid's axis, as a function of position
-     * @param out     pixel fluxes, one per pixel, added to
+     * @param out     pixel fluxes, one per pixel, added to; untouched when the density is refused
      * @throws IllegalArgumentException when the density is not finite or negative somewhere,
      *         naming the pixel
      */
@@ -59,13 +59,18 @@ public final class Continuum {
             throw new IllegalArgumentException("the output needs one value per pixel (" + grid.pixels() + "), got "
                     + out.length);
         }
-        for (int p = 0; p < grid.pixels(); p++) {
+        // Every pixel is integrated and checked before any is added, so a refused call leaves out as it was.
+        double[] fluxes = new double[grid.pixels()];
+        for (int p = 0; p < fluxes.length; p++) {
             double flux = GaussLegendre.integrate(density, grid.edge(p), grid.edge(p + 1));
             if (!(Double.isFinite(flux) && flux >= 0)) {
                 throw new IllegalArgumentException("pixel " + p + ": the continuum density gives " + flux
                         + " between " + grid.edge(p) + " and " + grid.edge(p + 1) + "; it must be finite and not negative");
             }
-            out[p] += flux;
+            fluxes[p] = flux;
+        }
+        for (int p = 0; p < fluxes.length; p++) {
+            out[p] += fluxes[p];
         }
     }
 

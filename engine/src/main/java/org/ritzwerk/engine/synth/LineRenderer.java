@@ -51,7 +51,7 @@ public final class LineRenderer {
      * @param gaussianFwhm Gaussian (Doppler) FWHMs before the instrument, not negative
      * @param lorentzFwhm  Lorentzian FWHMs, not negative; each line needs some width once the
      *                     instrument's is added
-     * @param out          pixel fluxes, one per pixel, added to
+     * @param out          pixel fluxes, one per pixel, added to; untouched when a line is refused
      * @throws IllegalArgumentException naming the first unusable line and field
      */
     public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out) {
@@ -64,16 +64,19 @@ public final class LineRenderer {
             throw new IllegalArgumentException("the output needs one value per pixel (" + grid.pixels() + "), got "
                     + out.length);
         }
+        // Every line is checked before any is drawn, so a refused call leaves out as it was.
         for (int i = 0; i < n; i++) {
             check(i, "position", position[i], true);
             check(i, "flux", flux[i], false);
             check(i, "Gaussian FWHM", gaussianFwhm[i], false);
             check(i, "Lorentzian FWHM", lorentzFwhm[i], false);
-            double g = Math.hypot(gaussianFwhm[i], instrument.fwhmAt(position[i]));
-            if (g == 0 && lorentzFwhm[i] == 0) {
+            if (gaussianFwhm[i] == 0 && lorentzFwhm[i] == 0 && instrument.fwhmAt(position[i]) == 0) {
                 throw new IllegalArgumentException("line " + i + " has no width: give a Gaussian or Lorentzian FWHM "
                         + "or an instrument response");
             }
+        }
+        for (int i = 0; i < n; i++) {
+            double g = Math.hypot(gaussianFwhm[i], instrument.fwhmAt(position[i]));
             renderOne(position[i], flux[i], g, lorentzFwhm[i], out);
         }
     }

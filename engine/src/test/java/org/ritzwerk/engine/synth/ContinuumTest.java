@@ -55,8 +55,10 @@ class ContinuumTest {
     @Test
     void refusesNegativeContinuaAndTemperatures() {
         PixelGrid grid = PixelGrid.linear(0, 1, 4);
+        double[] out = new double[4];
         assertTrue(assertThrows(IllegalArgumentException.class,
-                () -> Continuum.render(grid, x -> x - 0.5, new double[4])).getMessage().startsWith("pixel 0:"));
+                () -> Continuum.render(grid, x -> 0.5 - x, out)).getMessage().startsWith("pixel 2:"));
+        assertEquals(0, out[0] + out[1], 0, "a refused call adds nothing, not even to the good pixels");
         assertEquals("temperature must be finite and positive, got 0.0 K",
                 assertThrows(IllegalArgumentException.class, () -> Continuum.planckPerWavelength(1e-6, 0)).getMessage());
     }

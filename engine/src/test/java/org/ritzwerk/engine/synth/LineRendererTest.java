@@ -116,6 +116,10 @@ class LineRendererTest {
                         new double[] {1}, new double[] {0.1}, new double[] {0}, out)).getMessage());
         assertTrue(assertThrows(IllegalArgumentException.class, () -> renderer.render(new double[] {0.5},
                 new double[] {1}, new double[] {0}, new double[] {0}, out)).getMessage().startsWith("line 0 has no width"));
+        // A refused call draws nothing, not even the good lines before the bad one.
+        assertThrows(IllegalArgumentException.class, () -> renderer.render(new double[] {0.5, 0.5},
+                new double[] {1, Double.NaN}, new double[] {0.1, 0.1}, new double[] {0, 0}, out));
+        assertEquals(0, Arrays.stream(out).sum(), 0);
         assertTrue(assertThrows(IllegalArgumentException.class, () -> renderer.render(new double[] {0.5},
                 new double[] {1}, new double[] {0.1}, new double[] {0}, new double[3])).getMessage()
                 .contains("one value per pixel (10)"));
