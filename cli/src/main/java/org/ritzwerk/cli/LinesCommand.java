@@ -78,14 +78,7 @@ final class LinesCommand implements Callable<Integer> {
         if (!(minA >= 0) || Double.isInfinite(minA)) {
             throw new IllegalArgumentException("--min-a must be a finite rate >= 0 s^-1, got " + minA);
         }
-        boolean air;
-        if (medium.equals("air")) {
-            air = true;
-        } else if (medium.equals("vacuum")) {
-            air = false;
-        } else {
-            throw new IllegalArgumentException("--medium must be vacuum or air, got '" + medium + "'");
-        }
+        boolean air = AxisMedium.isAir(medium);
         SpectralQuantity one = QuantityText.standard().parseSpectral(from);
         SpectralQuantity two = QuantityText.standard().parseSpectral(to);
         if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {

@@ -135,11 +135,7 @@ final class SynthCommand implements Callable<Integer> {
         if (!(collisionalWidth >= 0) || Double.isInfinite(collisionalWidth)) {
             throw new IllegalArgumentException("--collisional-width must be a finite width >= 0 nm, got " + collisionalWidth);
         }
-        Medium axisMedium = switch (medium) {
-            case "air" -> Medium.air();
-            case "vacuum" -> Medium.vacuum();
-            default -> throw new IllegalArgumentException("--medium must be vacuum or air, got '" + medium + "'");
-        };
+        Medium axisMedium = AxisMedium.of(medium);
         double oneEnd = axisNanometres(from, axisMedium);
         double otherEnd = axisNanometres(to, axisMedium);
         double lo = Math.min(oneEnd, otherEnd);

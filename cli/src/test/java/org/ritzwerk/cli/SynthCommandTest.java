@@ -113,6 +113,11 @@ class SynthCommandTest {
                 "--temperature", "8000");
         assertEquals(2, empty.code());
         assertTrue(empty.err().contains("no line of H I falls between 700 nm and 800 nm"), empty.err());
+        CliTest.Run water = CliTest.run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
+                "--temperature", "8000", "--medium", "water");
+        assertTrue(water.err().contains("--medium must be vacuum or air, got 'water'"), water.err());
+        assertTrue(CliTest.run("lines", "--species", "H I", "--from", "650 nm", "--to", "660 nm", "--medium", "water")
+                .err().contains("--medium must be vacuum or air, got 'water'"));
         CliTest.Run cold = CliTest.run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
                 "--temperature", "-3");
         assertTrue(cold.err().contains("--temperature must be a positive number of kelvin"), cold.err());
