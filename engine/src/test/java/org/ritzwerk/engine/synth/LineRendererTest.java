@@ -124,4 +124,47 @@ class LineRendererTest {
                 new double[] {1}, new double[] {0.1}, new double[] {0}, new double[3])).getMessage()
                 .contains("one value per pixel (10)"));
     }
+
+    @Test
+    void manyThreadsGiveTheSameSpectrumBitForBit() {
+        // Lines overlapping each other and the block borders, with Lorentzian wings across the
+        // whole grid, so every pixel sums many lines: the order of the sums must not change.
+        java.util.SplittableRandom random = new java.util.SplittableRandom(31);
+        int lines = 3000;
+        double[] position = new double[lines];
+        double[] flux = new double[lines];
+        double[] gauss = new double[lines];
+        double[] lorentz = new double[lines];
+        for (int i = 0; i < lines; i++) {
+            position[i] = 395 + 30 * random.nextDouble();
+            flux[i] = random.nextDouble() * 1e3;
+            gauss[i] = 0.001 + 0.05 * random.nextDouble();
+            lorentz[i] = i % 3 == 0 ? 0 : 0.02 * random.nextDouble();
+        }
+        PixelGrid grid = PixelGrid.logarithmic(400, 420, 20_011);
+        LineRenderer renderer = new LineRenderer(grid, Instrument.ofResolvingPower(20_000), 200);
+        double[] single = new double[grid.pixels()];
+        renderer.render(position, flux, gauss, lorentz, single);
+        for (int threads : new int[] {2, 3, 8}) {
+            double[] parallel = new double[grid.pixels()];
+            renderer.render(position, flux, gauss, lorentz, parallel, threads);
+            for (int p = 0; p < single.length; p++) {
+                assertEquals(Double.doubleToRawLongBits(single[p]), Double.doubleToRawLongBits(parallel[p]),
+                        threads + " threads, pixel " + p);
+            }
+        }
+    }
+
+    @Test
+    void aRefusedParallelCallLeavesTheOutputAlone() {
+        PixelGrid grid = PixelGrid.linear(0, 10, 100);
+        double[] out = new double[100];
+        LineRenderer renderer = new LineRenderer(grid, Instrument.ideal(), 10);
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> renderer.render(
+                new double[] {5, 6}, new double[] {1, Double.NaN}, new double[] {0.1, 0.1}, new double[] {0, 0}, out, 2));
+        assertTrue(e.getMessage().contains("line 1: flux"), e.getMessage());
+        assertTrue(Arrays.stream(out).allMatch(v -> v == 0));
+        assertThrows(IllegalArgumentException.class, () -> renderer.render(
+                new double[] {5}, new double[] {1}, new double[] {0.1}, new double[] {0}, out, 0));
+    }
 }

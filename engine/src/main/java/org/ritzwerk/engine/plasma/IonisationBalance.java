@@ -1,0 +1,150 @@
+package org.ritzwerk.engine.plasma;
+
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+
+/**
+ * The Saha ionisation balance of an element in local thermodynamic equilibrium at a given
+ * temperature and electron density:
+ * <pre>
+ *   n(k+1) n_e / n(k) = 2 U(k+1) / U(k) (2 pi m_e k T / h^2)^(3/2) exp(-chi(k) / (k T))
+ * </pre>
+ * for stages k = 0 (neutral), 1, ... (common practice). The electron density is given, not
+ * solved for, so each element's balance stands on its own. Ionisation-potential lowering by the
+ * plasma is not applied; the partition functions' cutoff stands in for it.
+ *
+ * <p>For hydrogen and helium, {@link #hydrogen} and {@link #helium} take the one-electron
+ * stages' ionisation energies and partition functions from a {@link HydrogenLikeModel}, the
+ * partition function summed over n = 1 .. nMax ({@link #hydrogenLikePartition}). Neutral
+ * helium's partition function is taken as 1, its 1s^2 ground state alone: its first excited
+ * level lies 19.8 eV up (from memory), so the neglected part is below 0.2 % up to 30 000 K.
+ *
+ * <p>Stateless and thread-safe.
+ */
+public final class IonisationBalance {
+
+    /**
+     * Ionisation energy of neutral helium, 198 310.666 37 cm^-1 (NIST Atomic Spectra Database,
+     * from the measurement of Kandula et al. 2011; value from memory), in J.
+     */
+    public static final double HELIUM_I_IONISATION_ENERGY = 198_310.66637e2 * PhysicalConstants.H * PhysicalConstants.C;
+
+    private static final double ELECTRON_MASS = PhysicalConstants.ELECTRON_MASS.value();
+
+    private IonisationBalance() {
+    }
+
+    /**
+     * @param temperature       temperature in K, positive
+     * @param electronDensity   electron density in m^-3, positive
+     * @param ionisationEnergies ionisation energy of stage k to k+1 in J, one per stage but the
+     *                           last, positive
+     * @param partitionFunctions partition function of each stage, positive
+     * @return the fraction of the element's atoms in each stage, summing to 1
+     * @throws IllegalArgumentException naming the argument out of range
+     */
+    public static double[] fractions(double temperature, double electronDensity, double[] ionisationEnergies,
+            double[] partitionFunctions) {
+        positive("temperature", temperature, "K");
+        positive("electron density", electronDensity, "m^-3");
+        int stages = partitionFunctions.length;
+        if (stages < 2 || ionisationEnergies.length != stages - 1) {
+            throw new IllegalArgumentException("give at least two stages and one ionisation energy fewer than stages: "
+                    + stages + " partition functions, " + ionisationEnergies.length + " ionisation energies");
+        }
+        for (int k = 0; k < stages; k++) {
+            positive("partition function of stage " + k, partitionFunctions[k], "");
+        }
+        for (int k = 0; k < stages - 1; k++) {
+            positive("ionisation energy of stage " + k, ionisationEnergies[k], "J");
+        }
+        double kT = PhysicalConstants.K * temperature;
+        // ln of (2 pi m_e k T / h^2)^(3/2) / n_e, the free-electron states per electron.
+        double lnThermal = 1.5 * Math.log(2 * Math.PI * ELECTRON_MASS * kT
+                / (PhysicalConstants.H * PhysicalConstants.H)) - Math.log(electronDensity);
+        double[] lnN = new double[stages];
+        for (int k = 1; k < stages; k++) {
+            lnN[k] = lnN[k - 1] + Math.log(2 * partitionFunctions[k] / partitionFunctions[k - 1]) + lnThermal
+                    - ionisationEnergies[k - 1] / kT;
+        }
+        double max = Double.NEGATIVE_INFINITY;
+        for (double v : lnN) {
+            max = Math.max(max, v);
+        }
+        double sum = 0;
+        double[] fraction = new double[stages];
+        for (int k = 0; k < stages; k++) {
+            fraction[k] = Math.exp(lnN[k] - max);
+            sum += fraction[k];
+        }
+        for (int k = 0; k < stages; k++) {
+            fraction[k] /= sum;
+        }
+        return fraction;
+    }
+
+    /**
+     * The partition function of a one-electron ion, sum over n = 1 .. nMax of
+     * 2 n^2 exp(-(E_n - E_1) / (k T)), E_n the model's n s1/2 energy (fine structure left out
+     * of the weights' energies; common practice).
+     *
+     * @param model       the ion
+     * @param temperature temperature in K, positive
+     * @param nMax        the cutoff, at least 1
+     * @return the partition function, at least 2
+     */
+    public static double hydrogenLikePartition(HydrogenLikeModel model, double temperature, int nMax) {
+        positive("temperature", temperature, "K");
+        if (nMax < 1) {
+            throw new IllegalArgumentException("the partition function's cutoff n must be at least 1, got " + nMax);
+        }
+        double kT = PhysicalConstants.K * temperature;
+        double ground = model.energy(1, 0, 1);
+        double sum = 0;
+        for (int n = 1; n <= nMax; n++) {
+            sum += 2.0 * n * n * Math.exp(-(model.energy(n, 0, 1) - ground) / kT);
+        }
+        return sum;
+    }
+
+    /**
+     * @param model           the hydrogen (or deuterium) atom
+     * @param temperature     temperature in K
+     * @param electronDensity electron density in m^-3
+     * @param nMax            cutoff of the neutral's partition function
+     * @return fractions of H I and H II
+     */
+    public static double[] hydrogen(HydrogenLikeModel model, double temperature, double electronDensity, int nMax) {
+        requireZ(model, 1);
+        return fractions(temperature, electronDensity, new double[] {-model.energy(1, 0, 1)},
+                new double[] {hydrogenLikePartition(model, temperature, nMax), 1});
+    }
+
+    /**
+     * @param heliumIon       the He II ion (any helium isotope)
+     * @param temperature     temperature in K
+     * @param electronDensity electron density in m^-3
+     * @param nMax            cutoff of the He II partition function
+     * @return fractions of He I, He II and He III
+     */
+    public static double[] helium(HydrogenLikeModel heliumIon, double temperature, double electronDensity, int nMax) {
+        requireZ(heliumIon, 2);
+        return fractions(temperature, electronDensity,
+                new double[] {HELIUM_I_IONISATION_ENERGY, -heliumIon.energy(1, 0, 1)},
+                new double[] {1, hydrogenLikePartition(heliumIon, temperature, nMax), 1});
+    }
+
+    private static void requireZ(HydrogenLikeModel model, int z) {
+        if (model.nucleus().z() != z) {
+            throw new IllegalArgumentException("this balance needs a nucleus with Z = " + z + ", got Z = "
+                    + model.nucleus().z());
+        }
+    }
+
+    private static void positive(String what, double value, String unit) {
+        if (!(Double.isFinite(value) && value > 0)) {
+            throw new IllegalArgumentException(what + " must be finite and positive, got " + value
+                    + (unit.isEmpty() ? "" : " " + unit));
+        }
+    }
+}

@@ -1,0 +1,578 @@
+package org.ritzwerk.engine.synth;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.function.DoubleUnaryOperator;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.plasma.IonisationBalance;
+import org.ritzwerk.engine.profile.BalmerStark;
+import org.ritzwerk.engine.profile.Broadening;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.medium.MediumException;
+
+/**
+ * A described scene (emitters, plasma conditions, instrument, pixel grid) that renders into a
+ * {@link SyntheticSpectrum}. Build one with {@link #builder(PixelGrid)}.
+ *
+ * <h2>Physics</h2>
+ * <ul>
+ * <li>One-electron emitters ({@link Builder#hydrogenLike}): every n -&gt; n' multiplet whose
+ * (shifted) position falls in or near the grid, for upper n up to {@link Builder#nMax}. Photon
+ * rate of a line = N g_u A exp(-(E_u - E_1) / kT) / U, U the partition function cut off at
+ * nMax (Boltzmann's law, optically thin). N is the emitter's abundance times, when an electron
+ * density is given and the element is hydrogen or helium, its stage's Saha fraction
+ * ({@link IonisationBalance}); for other elements N is the abundance of that ion itself.</li>
+ * <li>Line lists ({@link Builder#lineList}): positions and photon rates as given (a lamp's
+ * relative intensities, say), broadened and shifted like the rest.</li>
+ * <li>Widths: Doppler (Gaussian, from the temperature and the emitter's mass), the
+ * instrument's Gaussian response, and a Lorentzian that is the sum of a collisional FWHM given
+ * by the caller, natural widths when asked ({@link Builder#naturalWidths}: each shell's total
+ * decay rate averaged over its n l j states with weights 2j + 1), and Stark widths of
+ * hydrogen's and deuterium's Balmer-alpha and -beta from {@link BalmerStark} when an electron
+ * density is given (other lines get no Stark width). Below the Stark fit's range the Stark
+ * widths are left out and a note says so.</li>
+ * <li>A bulk line-of-sight velocity shifts every line by the relativistic Doppler factor.</li>
+ * <li>Scale: lines are scaled so the brightest pixel of the line spectrum expects
+ * {@link Builder#peakCounts} counts; a continuum is added with its brightest pixel at its own
+ * given level; then Poisson and Gaussian read noise from a seed ({@link Noise}).</li>
+ * </ul>
+ *
+ * <p>Immutable and thread-safe once built; {@link #render(int)} gives the same result for any
+ * thread count, bit for bit.
+ */
+public final class Scene {
+
+    /** Natural widths cost an exact decay-rate sum per shell; they are offered up to this n. */
+    public static final int MAX_N_WITH_NATURAL_WIDTHS = 60;
+
+    private final PixelGrid grid;
+    private final Instrument instrument;
+    private final double window;
+    private final double peakCounts;
+    private final DoubleUnaryOperator continuum;
+    private final double continuumCounts;
+    private final double readNoise;
+    private final long seed;
+    private final boolean noise;
+    private final Lines lines;
+    private final List<String> notes;
+
+    private Scene(Builder b) {
+        this.grid = b.grid;
+        this.instrument = b.instrument;
+        this.window = b.window;
+        this.peakCounts = b.peakCounts;
+        this.continuum = b.continuum;
+        this.continuumCounts = b.continuumCounts;
+        this.readNoise = b.readNoise;
+        this.seed = b.seed;
+        this.noise = b.noise;
+        List<String> found = new ArrayList<>();
+        this.lines = b.lines(found);
+        this.notes = List.copyOf(found);
+    }
+
+    /**
+     * @param grid the pixels; its axis is wavelength in nm in the medium given to the builder
+     * @return a builder with: temperature 10 000 K, no electron density, velocity 0, vacuum
+     *         axis, ideal instrument, nMax 30, window {@link LineRenderer#DEFAULT_WINDOW},
+     *         10 000 peak counts, no continuum, noise-free
+     */
+    public static Builder builder(PixelGrid grid) {
+        return new Builder(grid);
+    }
+
+    /** @return the lines that go into the spectrum, before scaling (photon rates) */
+    public Lines lines() {
+        return lines;
+    }
+
+    /** @return things the caller should know about the scene (approximations that applied) */
+    public List<String> notes() {
+        return notes;
+    }
+
+    /**
+     * @param threads threads for the line rendering, 1 to 1024; the result does not depend on it
+     * @return the rendered spectrum
+     * @throws IllegalArgumentException when no line puts light into the grid and there is no
+     *         continuum, or a continuum density is unusable
+     */
+    public SyntheticSpectrum render(int threads) {
+        int pixels = grid.pixels();
+        double[] lineFlux = new double[pixels];
+        new LineRenderer(grid, instrument, window).render(lines.position, lines.photons, lines.gaussian,
+                lines.lorentz, lineFlux, threads);
+        double brightest = 0;
+        for (double v : lineFlux) {
+            brightest = Math.max(brightest, v);
+        }
+        if (brightest == 0 && continuum == null) {
+            throw new IllegalArgumentException("no line falls on the grid from " + grid.edge(0) + " to "
+                    + grid.edge(pixels) + " nm; widen the range, raise nMax or add emitters");
+        }
+        double scale = brightest == 0 ? 0 : peakCounts / brightest;
+        double[] expected = new double[pixels];
+        for (int p = 0; p < pixels; p++) {
+            expected[p] = lineFlux[p] * scale;
+        }
+        if (continuum != null) {
+            double[] shape = new double[pixels];
+            Continuum.render(grid, continuum, shape);
+            double top = 0;
+            for (double v : shape) {
+                top = Math.max(top, v);
+            }
+            if (!(top > 0)) {
+                throw new IllegalArgumentException("the continuum is zero over the whole grid");
+            }
+            for (int p = 0; p < pixels; p++) {
+                expected[p] += shape[p] * (continuumCounts / top);
+            }
+        }
+        double[] counts = expected.clone();
+        if (noise) {
+            Noise.apply(expected, readNoise, seed, counts);
+        }
+        double[] lineCounts = new double[lines.size()];
+        for (int i = 0; i < lineCounts.length; i++) {
+            lineCounts[i] = lines.photons[i] * scale;
+        }
+        return new SyntheticSpectrum(grid, expected, counts, lines, lineCounts);
+    }
+
+    /**
+     * The lines of a scene, by index: position (nm, axis medium, shifted), photon rate, Gaussian
+     * (Doppler, without the instrument) and Lorentzian FWHM in nm, and a label.
+     */
+    public static final class Lines {
+        private final double[] position;
+        private final double[] photons;
+        private final double[] gaussian;
+        private final double[] lorentz;
+        private final String[] label;
+
+        Lines(double[] position, double[] photons, double[] gaussian, double[] lorentz, String[] label) {
+            this.position = position;
+            this.photons = photons;
+            this.gaussian = gaussian;
+            this.lorentz = lorentz;
+            this.label = label;
+        }
+
+        /** @return number of lines */
+        public int size() {
+            return position.length;
+        }
+
+        /** @return line centre in nm in the axis medium, Doppler-shifted */
+        public double position(int i) {
+            return position[i];
+        }
+
+        /** @return photon rate before scaling (per unit of the emitter's abundance) */
+        public double photons(int i) {
+            return photons[i];
+        }
+
+        /** @return Doppler FWHM in nm (the instrument's is added in quadrature when rendering) */
+        public double gaussianFwhm(int i) {
+            return gaussian[i];
+        }
+
+        /** @return Lorentzian FWHM in nm: collisional + natural + Stark */
+        public double lorentzFwhm(int i) {
+            return lorentz[i];
+        }
+
+        /** @return e.g. {@code H I H-alpha} or the line list's label */
+        public String label(int i) {
+            return label[i];
+        }
+    }
+
+    /** Collects a scene's description; not thread-safe, build once and share the scene. */
+    public static final class Builder {
+        private final PixelGrid grid;
+        private final List<HydrogenLikeEmitter> ions = new ArrayList<>();
+        private final List<ListEmitter> lists = new ArrayList<>();
+        private double temperature = 10_000;
+        private double electronDensity = Double.NaN;
+        private double velocity;
+        private double collisional;
+        private boolean natural;
+        private int nMax = 30;
+        private Medium medium = Medium.vacuum();
+        private Instrument instrument = Instrument.ideal();
+        private double window = LineRenderer.DEFAULT_WINDOW;
+        private double peakCounts = 10_000;
+        private DoubleUnaryOperator continuum;
+        private double continuumCounts;
+        private double readNoise;
+        private long seed;
+        private boolean noise;
+
+        private Builder(PixelGrid grid) {
+            if (!(grid.edge(0) > 0)) {
+                throw new IllegalArgumentException("the grid's axis is wavelength in nm and must start above 0, got "
+                        + grid.edge(0));
+            }
+            this.grid = grid;
+        }
+
+        /**
+         * @param species   the ion, for its label and charge
+         * @param model     its level model
+         * @param abundance number (or number density) of atoms of its element (of the ion
+         *                  itself for elements other than H and He), positive
+         * @return this builder
+         */
+        public Builder hydrogenLike(Species species, HydrogenLikeModel model, double abundance) {
+            positive("abundance of " + species.notation(), abundance);
+            if (species.z() != model.nucleus().z() || !species.isHydrogenLike()) {
+                throw new IllegalArgumentException(species.notation() + " is not the one-electron ion of the model's "
+                        + "nucleus (Z = " + model.nucleus().z() + ")");
+            }
+            ions.add(new HydrogenLikeEmitter(species, model, abundance));
+            return this;
+        }
+
+        /**
+         * @param label           a name for the lines, e.g. {@code Ne I}
+         * @param vacuumNm        vacuum wavelengths in nm, positive
+         * @param photons         photon rates, finite and not negative
+         * @param emitterMassKg   the emitter's mass in kg, for the Doppler width
+         * @return this builder
+         */
+        public Builder lineList(String label, double[] vacuumNm, double[] photons, double emitterMassKg) {
+            if (vacuumNm.length != photons.length) {
+                throw new IllegalArgumentException(label + ": " + vacuumNm.length + " wavelengths but "
+                        + photons.length + " intensities");
+            }
+            for (int i = 0; i < vacuumNm.length; i++) {
+                if (!(vacuumNm[i] > 0) || Double.isInfinite(vacuumNm[i])) {
+                    throw new IllegalArgumentException(label + " line " + i + ": wavelength must be positive, got "
+                            + vacuumNm[i] + " nm");
+                }
+                if (!(photons[i] >= 0) || Double.isInfinite(photons[i])) {
+                    throw new IllegalArgumentException(label + " line " + i + ": intensity must be finite and not "
+                            + "negative, got " + photons[i]);
+                }
+            }
+            positive(label + " emitter mass", emitterMassKg);
+            lists.add(new ListEmitter(label, vacuumNm.clone(), photons.clone(), emitterMassKg));
+            return this;
+        }
+
+        /** @param kelvin excitation and kinetic temperature, positive, below 1e9 K */
+        public Builder temperature(double kelvin) {
+            if (!(kelvin > 0 && kelvin < 1e9)) {
+                throw new IllegalArgumentException("temperature must be positive and below 1e9 K, got " + kelvin);
+            }
+            this.temperature = kelvin;
+            return this;
+        }
+
+        /** @param perCubicMetre electron density, positive, up to {@link BalmerStark#MAX_DENSITY} */
+        public Builder electronDensity(double perCubicMetre) {
+            if (!(perCubicMetre > 0 && perCubicMetre <= BalmerStark.MAX_DENSITY)) {
+                throw new IllegalArgumentException("electron density must be positive and at most "
+                        + BalmerStark.MAX_DENSITY + " m^-3 (the Stark fit's range), got " + perCubicMetre);
+            }
+            this.electronDensity = perCubicMetre;
+            return this;
+        }
+
+        /** @param metresPerSecond line-of-sight velocity, positive away, below c / 10 */
+        public Builder velocity(double metresPerSecond) {
+            if (!(Math.abs(metresPerSecond) < 0.1 * PhysicalConstants.C)) {
+                throw new IllegalArgumentException("velocity must be below a tenth of the speed of light, got "
+                        + metresPerSecond + " m/s");
+            }
+            this.velocity = metresPerSecond;
+            return this;
+        }
+
+        /** @param nanometres Lorentzian FWHM given to every line, not negative */
+        public Builder collisionalFwhm(double nanometres) {
+            if (!(nanometres >= 0) || Double.isInfinite(nanometres)) {
+                throw new IllegalArgumentException("collisional FWHM must be finite and not negative, got "
+                        + nanometres + " nm");
+            }
+            this.collisional = nanometres;
+            return this;
+        }
+
+        /** @param on add natural widths of the one-electron emitters' lines */
+        public Builder naturalWidths(boolean on) {
+            this.natural = on;
+            return this;
+        }
+
+        /** @param n highest upper n and the partition functions' cutoff, 2 .. {@link HydrogenLikeLines#MAX_N} */
+        public Builder nMax(int n) {
+            if (n < 2 || n > HydrogenLikeLines.MAX_N) {
+                throw new IllegalArgumentException("nMax must be 2 to " + HydrogenLikeLines.MAX_N + ", got " + n);
+            }
+            this.nMax = n;
+            return this;
+        }
+
+        /** @param axisMedium the medium of the grid's wavelengths */
+        public Builder medium(Medium axisMedium) {
+            this.medium = axisMedium;
+            return this;
+        }
+
+        /** @param response the spectrometer's Gaussian response */
+        public Builder instrument(Instrument response) {
+            this.instrument = response;
+            return this;
+        }
+
+        /** @param fwhms rendering window half-width in Voigt FWHMs, see {@link LineRenderer} */
+        public Builder window(double fwhms) {
+            this.window = fwhms;
+            return this;
+        }
+
+        /** @param counts expected counts in the brightest pixel of the line spectrum, positive */
+        public Builder peakCounts(double counts) {
+            positive("peak counts", counts);
+            this.peakCounts = counts;
+            return this;
+        }
+
+        /**
+         * @param density             continuum per nm as a function of the axis wavelength in nm,
+         *                            e.g. {@code nm -> Continuum.planckPerWavelength(...)}
+         * @param brightestPixelCounts expected counts of its brightest pixel, positive
+         * @return this builder
+         */
+        public Builder continuum(DoubleUnaryOperator density, double brightestPixelCounts) {
+            positive("continuum counts", brightestPixelCounts);
+            this.continuum = density;
+            this.continuumCounts = brightestPixelCounts;
+            return this;
+        }
+
+        /**
+         * @param readNoiseCounts Gaussian read noise, standard deviation in counts, not negative
+         * @param noiseSeed       the seed; the same seed gives the same counts
+         * @return this builder
+         */
+        public Builder noise(double readNoiseCounts, long noiseSeed) {
+            if (!(readNoiseCounts >= 0) || Double.isInfinite(readNoiseCounts)) {
+                throw new IllegalArgumentException("read noise must be finite and not negative, got " + readNoiseCounts);
+            }
+            this.readNoise = readNoiseCounts;
+            this.seed = noiseSeed;
+            this.noise = true;
+            return this;
+        }
+
+        /**
+         * @return the scene, its lines computed
+         * @throws IllegalArgumentException when there are no emitters, or natural widths are
+         *         asked for beyond {@link #MAX_N_WITH_NATURAL_WIDTHS}
+         */
+        public Scene build() {
+            if (ions.isEmpty() && lists.isEmpty()) {
+                throw new IllegalArgumentException("the scene has no emitters: add a one-electron ion or a line list");
+            }
+            if (natural && nMax > MAX_N_WITH_NATURAL_WIDTHS && !ions.isEmpty()) {
+                throw new IllegalArgumentException("natural widths are computed up to n = " + MAX_N_WITH_NATURAL_WIDTHS
+                        + "; lower nMax (" + nMax + ") or leave natural widths out");
+            }
+            return new Scene(this);
+        }
+
+        private Lines lines(List<String> notes) {
+            double doppler = Math.sqrt((1 + velocity / PhysicalConstants.C) / (1 - velocity / PhysicalConstants.C));
+            double lo = grid.edge(0);
+            double hi = grid.edge(grid.pixels());
+            boolean stark = !Double.isNaN(electronDensity) && electronDensity >= BalmerStark.MIN_DENSITY;
+            // Lines this far beyond the grid can still put light into it: the window times a
+            // generous width (instrument, collisional, Doppler of hydrogen at 1e5 K, Stark).
+            double widest = instrument.fwhmAt(hi) + collisional + 2.5e-4 * hi
+                    + (stark ? BalmerStark.fwhmNanometres(BalmerStark.Line.BETA, electronDensity) : 0);
+            double reach = window * widest;
+            if (!Double.isNaN(electronDensity) && !stark) {
+                notes.add("electron density " + electronDensity + " m^-3 is below the Balmer Stark fit's range ("
+                        + BalmerStark.MIN_DENSITY + " m^-3); Stark widths are left out (under 0.005 nm there)");
+            }
+            Collected out = new Collected(lo, hi);
+            for (HydrogenLikeEmitter ion : ions) {
+                addIon(ion, out, doppler, Math.max(lo - reach, lo / 2), hi + reach, stark, notes);
+            }
+            for (ListEmitter list : lists) {
+                for (int i = 0; i < list.vacuumNm.length; i++) {
+                    double vacuumShifted = list.vacuumNm[i] * doppler;
+                    if (vacuumShifted < lo - reach || vacuumShifted > (hi + reach) * 1.001) {
+                        continue;
+                    }
+                    double axis = toAxis(vacuumShifted, lo, hi, out);
+                    if (Double.isNaN(axis) || axis < lo - reach || axis > hi + reach) {
+                        continue;
+                    }
+                    double nu = PhysicalConstants.C / (list.vacuumNm[i] * 1e-9);
+                    double gauss = axis * Broadening.dopplerFwhm(nu, temperature, list.massKg) / nu;
+                    out.add(axis, list.photons[i], gauss, collisional, list.label);
+                }
+            }
+            if (out.outsideMedium > 0) {
+                notes.add(out.outsideMedium + " line(s) just beyond the grid's ends lie outside the air model's range "
+                        + "and were left out; only their far wings would have reached the grid");
+            }
+            return out.lines();
+        }
+
+        /**
+         * A shifted vacuum wavelength in nm as an axis wavelength in nm; NaN (counted) for a line
+         * beyond the grid's ends that the air model cannot convert.
+         */
+        private double toAxis(double vacuumNm, double lo, double hi, Collected out) {
+            try {
+                return medium.fromVacuum(vacuumNm * 1e-9) * 1e9;
+            } catch (MediumException e) {
+                if (vacuumNm * 1.001 >= lo && vacuumNm <= hi * 1.001) {
+                    throw e;
+                }
+                out.outsideMedium++;
+                return Double.NaN;
+            }
+        }
+
+        private void addIon(HydrogenLikeEmitter ion, Collected out, double doppler, double loNm, double hiNm,
+                boolean stark, List<String> notes) {
+            HydrogenLikeModel model = ion.model;
+            double kT = PhysicalConstants.K * temperature;
+            double ground = model.energy(1, 0, 1);
+            double partition = IonisationBalance.hydrogenLikePartition(model, temperature, nMax);
+            double number = ion.abundance * stageFraction(ion, notes);
+            // Air wavelengths are shorter than vacuum ones by less than 0.1 %: a safe search range.
+            double vacuumLo = loNm * 1e-9 / doppler;
+            double vacuumHi = hiNm * 1.001e-9 / doppler;
+            LineTable table = HydrogenLikeLines.of(model).multiplets(nMax, PhysicalConstants.C / vacuumHi,
+                    PhysicalConstants.C / vacuumLo);
+            double mass = model.nucleus().massKg() + PhysicalConstants.ELECTRON_MASS.value();
+            double[] shellRate = natural ? new double[nMax + 1] : null;
+            for (int i = 0; i < table.size(); i++) {
+                int upperN = table.upperN(i);
+                double upper = model.energy(upperN, 0, 1);
+                double photons = number * table.upperWeight(i) * table.einsteinA(i)
+                        * Math.exp(-(upper - ground) / kT) / partition;
+                double nu = table.frequency(i);
+                double vacuum = PhysicalConstants.C / nu;
+                double axis = toAxis(doppler * vacuum * 1e9, out.lo, out.hi, out);
+                if (Double.isNaN(axis) || axis < loNm || axis > hiNm) {
+                    continue;
+                }
+                double nmPerHertz = axis / nu;
+                double gauss = nmPerHertz * Broadening.dopplerFwhm(nu, temperature, mass);
+                double lorentz = collisional;
+                if (natural) {
+                    lorentz += nmPerHertz * Broadening.naturalFwhm(shellDecayRate(model, upperN, shellRate),
+                            shellDecayRate(model, table.lowerN(i), shellRate));
+                }
+                BalmerStark.Line balmer = BalmerStark.Line.of(upperN, table.lowerN(i));
+                if (stark && balmer != null && model.nucleus().z() == 1) {
+                    lorentz += BalmerStark.fwhmNanometres(balmer, electronDensity) * axis / (vacuum * 1e9);
+                }
+                out.add(axis, photons, gauss, lorentz, ion.species.notation() + " " + table.seriesName(i));
+            }
+        }
+
+        /** The Saha fraction of the ion's stage, or 1 when there is no density or no balance for it. */
+        private double stageFraction(HydrogenLikeEmitter ion, List<String> notes) {
+            if (Double.isNaN(electronDensity)) {
+                return 1;
+            }
+            return switch (ion.model.nucleus().z()) {
+                case 1 -> IonisationBalance.hydrogen(ion.model, temperature, electronDensity, nMax)[0];
+                case 2 -> IonisationBalance.helium(ion.model, temperature, electronDensity, nMax)[1];
+                default -> {
+                    notes.add(ion.species.notation() + ": no ionisation balance for Z = " + ion.model.nucleus().z()
+                            + "; its abundance is taken as the ion's own");
+                    yield 1;
+                }
+            };
+        }
+
+        /** Total decay rate of shell n, averaged over its n l j states with weights 2j + 1; cached. */
+        private static double shellDecayRate(HydrogenLikeModel model, int n, double[] cache) {
+            if (n == 1) {
+                return 0;
+            }
+            if (cache[n] == 0) {
+                HydrogenLikeLines lines = HydrogenLikeLines.of(model);
+                double sum = 0;
+                for (int l = 0; l < n; l++) {
+                    for (int twoJ = 2 * l - 1; twoJ <= 2 * l + 1; twoJ += 2) {
+                        if (twoJ > 0) {
+                            sum += (twoJ + 1) / lines.lifetime(n, l, twoJ);
+                        }
+                    }
+                }
+                cache[n] = sum / (2.0 * n * n);
+            }
+            return cache[n];
+        }
+
+        private static void positive(String what, double value) {
+            if (!(value > 0) || Double.isInfinite(value)) {
+                throw new IllegalArgumentException(what + " must be finite and positive, got " + value);
+            }
+        }
+    }
+
+    private record HydrogenLikeEmitter(Species species, HydrogenLikeModel model, double abundance) {
+    }
+
+    private record ListEmitter(String label, double[] vacuumNm, double[] photons, double massKg) {
+    }
+
+    /** Growable columns of lines. */
+    private static final class Collected {
+        private final double lo;
+        private final double hi;
+        private int outsideMedium;
+        private int size;
+        private double[] position = new double[64];
+        private double[] photons = new double[64];
+        private double[] gaussian = new double[64];
+        private double[] lorentz = new double[64];
+        private String[] label = new String[64];
+
+        Collected(double lo, double hi) {
+            this.lo = lo;
+            this.hi = hi;
+        }
+
+        void add(double at, double rate, double gauss, double lorentzFwhm, String text) {
+            if (size == position.length) {
+                position = Arrays.copyOf(position, 2 * size);
+                photons = Arrays.copyOf(photons, 2 * size);
+                gaussian = Arrays.copyOf(gaussian, 2 * size);
+                lorentz = Arrays.copyOf(lorentz, 2 * size);
+                label = Arrays.copyOf(label, 2 * size);
+            }
+            position[size] = at;
+            photons[size] = rate;
+            gaussian[size] = gauss;
+            lorentz[size] = lorentzFwhm;
+            label[size] = text;
+            size++;
+        }
+
+        Lines lines() {
+            return new Lines(Arrays.copyOf(position, size), Arrays.copyOf(photons, size), Arrays.copyOf(gaussian, size),
+                    Arrays.copyOf(lorentz, size), Arrays.copyOf(label, size));
+        }
+    }
+}

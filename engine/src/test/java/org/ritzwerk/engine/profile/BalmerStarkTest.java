@@ -1,0 +1,75 @@
+package org.ritzwerk.engine.profile;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.quicktheories.QuickTheory.qt;
+import static org.quicktheories.generators.SourceDSL.doubles;
+
+import org.junit.jupiter.api.Test;
+
+/**
+ * The Balmer Stark widths against the published fits of Gigosos, Gonzalez and Cardenoso,
+ * Spectrochim. Acta B 58, 1489 (2003): FWHM(H-beta) = 4.800 nm (Ne / 1e23 m^-3)^0.68116 and
+ * FWHM(H-alpha) = 1.098 nm (Ne / 1e23 m^-3)^0.67965 (coefficients read in second-hand copies
+ * of the paper's fits). The values below are those fits evaluated by hand (4 digits).
+ */
+class BalmerStarkTest {
+
+    @Test
+    void hBetaWidthsFollowThePublishedFit() {
+        assertEquals(4.800, BalmerStark.fwhmNanometres(BalmerStark.Line.BETA, 1e23), 1e-12);
+        // 4.8 * 10^-0.68116 = 1.0002; 4.8 * 10^0.68116 = 23.04; 4.8 * 10^(-2 * 0.68116) = 0.2085.
+        assertEquals(1.0002, BalmerStark.fwhmNanometres(BalmerStark.Line.BETA, 1e22), 1e-4);
+        assertEquals(23.04, BalmerStark.fwhmNanometres(BalmerStark.Line.BETA, 1e24), 1e-2);
+        assertEquals(0.2085, BalmerStark.fwhmNanometres(BalmerStark.Line.BETA, 1e21), 1e-4);
+    }
+
+    @Test
+    void hAlphaWidthsFollowThePublishedFit() {
+        assertEquals(1.098, BalmerStark.fwhmNanometres(BalmerStark.Line.ALPHA, 1e23), 1e-12);
+        // 1.098 * 10^-0.67965 = 0.2296.
+        assertEquals(0.2296, BalmerStark.fwhmNanometres(BalmerStark.Line.ALPHA, 1e22), 1e-4);
+    }
+
+    @Test
+    void theDiagnosticInvertsTheWidth() {
+        qt().withFixedSeed(41L).withExamples(200)
+                .forAll(doubles().between(20.01, 24.99))
+                .checkAssert(log -> {
+                    double density = Math.pow(10, log);
+                    for (BalmerStark.Line line : BalmerStark.Line.values()) {
+                        double width = BalmerStark.fwhmNanometres(line, density);
+                        assertEquals(density, BalmerStark.electronDensity(line, width), density * 1e-12);
+                    }
+                });
+    }
+
+    @Test
+    void theDensityUncertaintyIsTheWidthsOverTheExponent() {
+        double d = BalmerStark.electronDensity(BalmerStark.Line.BETA, 1.0);
+        assertEquals(d * 0.02 / 0.68116, BalmerStark.electronDensityUncertainty(BalmerStark.Line.BETA, 1.0, 0.02),
+                d * 1e-12);
+    }
+
+    @Test
+    void onlyBalmerAlphaAndBetaHaveAFit() {
+        assertEquals(BalmerStark.Line.ALPHA, BalmerStark.Line.of(3, 2));
+        assertEquals(BalmerStark.Line.BETA, BalmerStark.Line.of(4, 2));
+        assertEquals(null, BalmerStark.Line.of(5, 2));
+        assertEquals(null, BalmerStark.Line.of(3, 1));
+    }
+
+    @Test
+    void outsideTheFitsRangeItRefuses() {
+        IllegalArgumentException low = assertThrows(IllegalArgumentException.class,
+                () -> BalmerStark.fwhmNanometres(BalmerStark.Line.BETA, 1e18));
+        assertTrue(low.getMessage().contains("outside"), low.getMessage());
+        IllegalArgumentException wide = assertThrows(IllegalArgumentException.class,
+                () -> BalmerStark.electronDensity(BalmerStark.Line.BETA, 500));
+        assertTrue(wide.getMessage().contains("H-beta Stark FWHM 500.0 nm"), wide.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> BalmerStark.electronDensity(BalmerStark.Line.ALPHA, 0));
+        assertThrows(IllegalArgumentException.class,
+                () -> BalmerStark.electronDensity(BalmerStark.Line.ALPHA, Double.NaN));
+    }
+}

@@ -1,0 +1,215 @@
+package org.ritzwerk.engine.synth;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.Arrays;
+import java.util.OptionalDouble;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.plasma.IonisationBalance;
+import org.ritzwerk.engine.profile.BalmerStark;
+import org.ritzwerk.engine.profile.Profiles;
+import org.ritzwerk.medium.Medium;
+
+/** Scenes: flux bookkeeping, threads, Saha weights, Stark widths, bad descriptions. */
+class SceneTest {
+
+    /** Proton (CODATA 2018 mass). */
+    private static final Nucleus PROTON = new Nucleus(1, 1, PhysicalConstants.PROTON_MASS.value(), 1,
+            OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018");
+    /** Alpha particle, 6.6446573357e-27 kg (CODATA 2018, from memory). */
+    private static final Nucleus ALPHA = new Nucleus(2, 4, 6.6446573357e-27, 0,
+            OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018");
+    private static final HydrogenLikeModel H = HydrogenLikeModel.of(PROTON, Tier.DIRAC);
+    private static final HydrogenLikeModel HE_II = HydrogenLikeModel.of(ALPHA, Tier.DIRAC);
+
+    @Test
+    void everyLineWellInsideTheGridPutsItsCountsIntoThePixels() {
+        // Gaussian-only lines, far from the ends: the pixel sum of the expected spectrum is the
+        // sum of the lines' counts to 1e-6 (flux conservation through profiles and pixels).
+        Scene scene = Scene.builder(PixelGrid.linear(380, 700, 30_000))
+                .hydrogenLike(Species.parse("H I"), H, 1)
+                .temperature(12_000)
+                .instrument(Instrument.ofResolvingPower(8000))
+                .medium(Medium.air())
+                .build();
+        SyntheticSpectrum spectrum = scene.render(1);
+        double lines = 0;
+        for (int i = 0; i < scene.lines().size(); i++) {
+            double at = scene.lines().position(i);
+            if (at > 381 && at < 699) {
+                lines += spectrum.lineCounts(i);
+            }
+        }
+        double pixels = Arrays.stream(spectrum.expectedCounts()).sum();
+        assertTrue(lines > 0);
+        // Lines beyond the ends (the Balmer limit side) spill a little in; none near 380 here.
+        assertEquals(lines, pixels, 1e-6 * lines);
+        assertEquals(10_000, Arrays.stream(spectrum.expectedCounts()).max().orElseThrow(), 1e-9);
+    }
+
+    @Test
+    void threadsDoNotChangeTheSpectrum() {
+        Scene scene = Scene.builder(PixelGrid.logarithmic(300, 700, 50_000))
+                .hydrogenLike(Species.parse("H I"), H, 1)
+                .hydrogenLike(Species.parse("He II"), HE_II, 0.1)
+                .temperature(30_000).electronDensity(3e22).collisionalFwhm(0.01)
+                .instrument(Instrument.ofResolvingPower(20_000))
+                .continuum(nm -> Continuum.planckPerWavelength(nm * 1e-9, 30_000), 50)
+                .noise(3, 99)
+                .build();
+        SyntheticSpectrum one = scene.render(1);
+        SyntheticSpectrum four = scene.render(4);
+        assertTrue(Arrays.equals(one.counts(), four.counts()));
+        assertTrue(Arrays.equals(one.expectedCounts(), four.expectedCounts()));
+    }
+
+    @Test
+    void sahaWeightsTheStagesOfEachElement() {
+        // With an electron density the H I and He II line rates carry their Saha fractions.
+        PixelGrid grid = PixelGrid.linear(400, 700, 1000);
+        double t = 25_000;
+        double ne = 1e22;
+        Scene withDensity = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1)
+                .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(t).electronDensity(ne).build();
+        Scene without = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1)
+                .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(t).build();
+        double hI = IonisationBalance.hydrogen(H, t, ne, 30)[0];
+        double heII = IonisationBalance.helium(HE_II, t, ne, 30)[1];
+        // The Stark widths widen the reach, so the dense scene may hold more lines beyond the ends.
+        java.util.Map<String, Double> dense = new java.util.HashMap<>();
+        for (int i = 0; i < withDensity.lines().size(); i++) {
+            dense.put(withDensity.lines().label(i), withDensity.lines().photons(i));
+        }
+        assertTrue(without.lines().size() > 10);
+        for (int i = 0; i < without.lines().size(); i++) {
+            String label = without.lines().label(i);
+            double fraction = label.startsWith("He II") ? heII : hI;
+            assertEquals(without.lines().photons(i) * fraction, dense.get(label),
+                    1e-12 * without.lines().photons(i), label);
+        }
+    }
+
+    @Test
+    void theStarkWidthOfHBetaComesBackThroughTheDiagnostic() {
+        // Render H-beta at a known density with a fine grid and no instrument, measure the Voigt
+        // FWHM from the pixels, remove the Doppler part (Olivero-Longbothum) and invert.
+        double ne = 2e22;
+        Scene scene = Scene.builder(PixelGrid.linear(470, 500, 60_000))
+                .hydrogenLike(Species.parse("H I"), H, 1).temperature(10_000).electronDensity(ne).nMax(6)
+                .window(2000).build();
+        int beta = -1;
+        for (int i = 0; i < scene.lines().size(); i++) {
+            if (scene.lines().label(i).endsWith("Balmer beta")) {
+                beta = i;
+            }
+        }
+        assertTrue(beta >= 0);
+        double[] counts = scene.render(2).expectedCounts();
+        double measured = fullWidthAtHalfMaximum(PixelGrid.linear(470, 500, 60_000), counts);
+        double gauss = scene.lines().gaussianFwhm(beta);
+        // Invert f_V = 0.5346 f_L + sqrt(0.2166 f_L^2 + f_G^2) for f_L.
+        double lorentz = solveLorentz(measured, gauss);
+        double density = BalmerStark.electronDensity(BalmerStark.Line.BETA, lorentz);
+        assertEquals(ne, density, 0.01 * ne);
+    }
+
+    @Test
+    void naturalWidthsAddTheShellsDecayRates() {
+        // Lyman-alpha (vacuum) from n = 2: the 2p decay rate 6.2649e8 s^-1 (Wiese & Fuhr 2009)
+        // averaged with the 2s (no E1 decay) over 2n^2 = 8 states with weights 2j + 1: 6/8 of it.
+        Scene scene = Scene.builder(PixelGrid.linear(120, 125, 1000))
+                .hydrogenLike(Species.parse("H I"), H, 1).temperature(100).naturalWidths(true).nMax(2).build();
+        assertEquals(1, scene.lines().size());
+        double nu = PhysicalConstants.C / (scene.lines().position(0) * 1e-9);
+        double hertz = scene.lines().lorentzFwhm(0) / scene.lines().position(0) * nu;
+        assertEquals(0.75 * 6.2649e8 / (2 * Math.PI), hertz, 1e-3 * hertz);
+    }
+
+    @Test
+    void lineListsAreShiftedAndBroadenedLikeTheRest() {
+        double[] vacuum = {500.0, 600.0};
+        double v = 30_000;
+        Scene scene = Scene.builder(PixelGrid.linear(450, 650, 4000))
+                .lineList("Xx I", vacuum, new double[] {1, 2}, 20 * PhysicalConstants.ATOMIC_MASS_CONSTANT.value())
+                .velocity(v).temperature(300).build();
+        double factor = Math.sqrt((1 + v / PhysicalConstants.C) / (1 - v / PhysicalConstants.C));
+        assertEquals(500 * factor, scene.lines().position(0), 1e-9);
+        assertEquals("Xx I", scene.lines().label(1));
+    }
+
+    @Test
+    void badDescriptionsAreRefusedWithTheirName() {
+        PixelGrid grid = PixelGrid.linear(400, 700, 100);
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> Scene.builder(grid).build());
+        assertTrue(e.getMessage().contains("no emitters"), e.getMessage());
+        e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid).temperature(-1));
+        assertTrue(e.getMessage().startsWith("temperature"), e.getMessage());
+        e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid).electronDensity(1e27));
+        assertTrue(e.getMessage().contains("Stark fit"), e.getMessage());
+        e = assertThrows(IllegalArgumentException.class,
+                () -> Scene.builder(grid).hydrogenLike(Species.parse("He II"), H, 1));
+        assertTrue(e.getMessage().contains("He II"), e.getMessage());
+        e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid)
+                .lineList("Ne I", new double[] {500, -1}, new double[] {1, 1}, 3e-26));
+        assertTrue(e.getMessage().contains("Ne I line 1"), e.getMessage());
+        e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(PixelGrid.linear(2000, 2100, 10))
+                .hydrogenLike(Species.parse("H I"), H, 1).nMax(3).build().render(1));
+        assertTrue(e.getMessage().contains("no line falls"), e.getMessage());
+        e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid)
+                .hydrogenLike(Species.parse("H I"), H, 1).naturalWidths(true).nMax(100).build());
+        assertTrue(e.getMessage().contains("natural widths"), e.getMessage());
+    }
+
+    @Test
+    void aDensityBelowTheStarkFitIsNoted() {
+        Scene scene = Scene.builder(PixelGrid.linear(400, 700, 100)).hydrogenLike(Species.parse("H I"), H, 1)
+                .electronDensity(1e18).build();
+        assertEquals(1, scene.notes().size());
+        assertTrue(scene.notes().get(0).contains("Stark widths are left out"), scene.notes().get(0));
+    }
+
+    private static double fullWidthAtHalfMaximum(PixelGrid grid, double[] counts) {
+        int top = 0;
+        for (int p = 1; p < counts.length; p++) {
+            if (counts[p] > counts[top]) {
+                top = p;
+            }
+        }
+        double half = counts[top] / 2;
+        int left = top;
+        while (counts[left] > half) {
+            left--;
+        }
+        int right = top;
+        while (counts[right] > half) {
+            right++;
+        }
+        double x1 = grid.centre(left) + (half - counts[left]) / (counts[left + 1] - counts[left])
+                * (grid.centre(left + 1) - grid.centre(left));
+        double x2 = grid.centre(right - 1) + (half - counts[right - 1]) / (counts[right] - counts[right - 1])
+                * (grid.centre(right) - grid.centre(right - 1));
+        return x2 - x1;
+    }
+
+    private static double solveLorentz(double voigt, double gauss) {
+        double lo = 0;
+        double hi = voigt;
+        for (int i = 0; i < 200; i++) {
+            double mid = (lo + hi) / 2;
+            if (Profiles.voigtFwhm(gauss, mid) < voigt) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return (lo + hi) / 2;
+    }
+}
