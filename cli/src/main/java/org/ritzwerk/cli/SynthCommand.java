@@ -7,18 +7,22 @@ import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
 import java.util.concurrent.Callable;
+import java.util.function.DoubleUnaryOperator;
 import org.ritzwerk.constants.PhysicalConstants;
-import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
-import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
-import org.ritzwerk.engine.hydrogenic.LineTable;
-import org.ritzwerk.engine.profile.Broadening;
+import org.ritzwerk.atom.Elements;
+import org.ritzwerk.engine.synth.Continuum;
 import org.ritzwerk.engine.synth.Instrument;
-import org.ritzwerk.engine.synth.LineRenderer;
-import org.ritzwerk.engine.synth.Noise;
 import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.QuantityText;
 import picocli.CommandLine.Command;
@@ -26,6 +30,9 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import tools.jackson.databind.json.JsonMapper;
+import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.ObjectNode;
 
 /** {@code ritzwerk synth}: a synthetic emission spectrum of one-electron ions with known truth. */
 @Command(name = "synth",
@@ -104,6 +111,47 @@ final class SynthCommand implements Callable<Integer> {
     @Option(names = "--no-noise", description = "Write the expected counts without noise.")
     boolean noNoise;
 
+    @Option(names = "--electron-density", paramLabel = "PER_M3",
+            description = {"Electron density in m^-3: weights H I, He II (and He I) by the Saha balance at",
+                "--temperature and gives H-alpha and H-beta their Stark widths (Gigosos et al. 2003 fits)."})
+    Double electronDensity;
+
+    @Option(names = "--abundance", paramLabel = "ELEMENT=N",
+            description = {"Relative number of atoms of an element, e.g. He=0.1 (repeatable; default 1 each)."})
+    java.util.List<String> abundances = new java.util.ArrayList<>();
+
+    @Option(names = "--natural-widths", description = "Add the lines' natural (radiative) widths; needs --n-max <= 60.")
+    boolean naturalWidths;
+
+    @Option(names = "--continuum", paramLabel = "KIND", defaultValue = "none",
+            description = {"none, flat, or blackbody (at --continuum-temperature). Default: ${DEFAULT-VALUE}."})
+    String continuumKind;
+
+    @Option(names = "--continuum-file", paramLabel = "FILE",
+            description = {"A continuum of your own: CSV with a header wavelength_nm,density (axis medium),",
+                "wavelengths rising and covering the range; linear between points."})
+    Path continuumFile;
+
+    @Option(names = "--continuum-temperature", paramLabel = "K",
+            description = "Temperature of a blackbody continuum. Default: --temperature.")
+    Double continuumTemperature;
+
+    @Option(names = "--continuum-counts", paramLabel = "COUNTS", defaultValue = "100",
+            description = "Expected counts of the continuum's brightest pixel. Default: ${DEFAULT-VALUE}.")
+    double continuumCounts;
+
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "csv",
+            description = {"csv (ritzwerk-spectrum 1) or json (one document with the pixels and the lines).",
+                "Default: ${DEFAULT-VALUE}."})
+    String format;
+
+    @Option(names = "--plot", paramLabel = "PNG", description = "Also draw the spectrum, strongest lines labelled, into this PNG.")
+    Path plot;
+
+    @Option(names = "--threads", paramLabel = "N",
+            description = "Threads for rendering; the result is the same for any number. Default: all processors.")
+    Integer threads;
+
     @Option(names = "--out", paramLabel = "FILE", description = "Write the spectrum here instead of to the output.")
     Path out;
 
@@ -112,28 +160,18 @@ final class SynthCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        if (!(temperature > 0 && temperature < 1e9)) {
-            throw new IllegalArgumentException("--temperature must be a positive number of kelvin below 1e9, got "
-                    + temperature);
+        if (pixels < 2 || pixels > 50_000_000) {
+            throw new IllegalArgumentException("--pixels must be 2 to 50000000, got " + pixels);
         }
         if (!(resolvingPower > 0) || Double.isInfinite(resolvingPower)) {
             throw new IllegalArgumentException("--resolving-power must be a finite positive number, got " + resolvingPower);
         }
-        if (pixels < 2 || pixels > 50_000_000) {
-            throw new IllegalArgumentException("--pixels must be 2 to 50000000, got " + pixels);
+        if (!format.equals("csv") && !format.equals("json")) {
+            throw new IllegalArgumentException("--format must be csv or json, got '" + format + "'");
         }
-        if (nMax < 2 || nMax > HydrogenLikeLines.MAX_N) {
-            throw new IllegalArgumentException("--n-max must be 2 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
-        }
-        if (!(peakCounts > 0) || Double.isInfinite(peakCounts)) {
-            throw new IllegalArgumentException("--peak-counts must be a finite positive number, got " + peakCounts);
-        }
-        if (!(Math.abs(velocity) < 0.1 * PhysicalConstants.C / 1e3)) {
-            throw new IllegalArgumentException("--velocity must be below a tenth of the speed of light (29979 km/s), got "
-                    + velocity);
-        }
-        if (!(collisionalWidth >= 0) || Double.isInfinite(collisionalWidth)) {
-            throw new IllegalArgumentException("--collisional-width must be a finite width >= 0 nm, got " + collisionalWidth);
+        int threadCount = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
+        if (threadCount < 1 || threadCount > 1024) {
+            throw new IllegalArgumentException("--threads must be 1 to 1024, got " + threadCount);
         }
         Medium axisMedium = AxisMedium.of(medium);
         double oneEnd = axisNanometres(from, axisMedium);
@@ -148,37 +186,133 @@ final class SynthCommand implements Callable<Integer> {
             case "log" -> PixelGrid.logarithmic(lo, hi, pixels);
             default -> throw new IllegalArgumentException("--grid must be linear or log, got '" + gridKind + "'");
         };
-
-        // Lines just beyond the ends still spill light into the edge pixels.
-        double margin = 50 * (hi / resolvingPower + collisionalWidth);
-        Scene scene = new Scene();
-        for (Ions.Ion ion : ions.resolve()) {
-            addLines(scene, ion, axisMedium, lo - margin, hi + margin);
+        Scene.Builder builder = Scene.builder(grid)
+                .medium(axisMedium)
+                .instrument(Instrument.ofResolvingPower(resolvingPower))
+                .naturalWidths(naturalWidths);
+        option("--temperature", () -> builder.temperature(temperature));
+        option("--n-max", () -> builder.nMax(nMax));
+        option("--velocity", () -> builder.velocity(velocity * 1e3));
+        option("--collisional-width", () -> builder.collisionalFwhm(collisionalWidth));
+        option("--peak-counts", () -> builder.peakCounts(peakCounts));
+        if (electronDensity != null) {
+            option("--electron-density", () -> builder.electronDensity(electronDensity));
         }
-        double[] expected = new double[grid.pixels()];
-        new LineRenderer(grid, Instrument.ofResolvingPower(resolvingPower), LineRenderer.DEFAULT_WINDOW)
-                .render(scene.positions(), scene.fluxes(), scene.gaussianWidths(), lorentzWidths(scene.size), expected);
-        double brightest = 0;
-        for (double v : expected) {
-            brightest = Math.max(brightest, v);
+        Map<Integer, Double> abundance = abundances();
+        List<Ions.Ion> resolved = ions.resolve();
+        for (Ions.Ion ion : resolved) {
+            builder.hydrogenLike(ion.species(), ion.model(), abundance.getOrDefault(ion.species().z(), 1.0));
         }
-        if (brightest == 0) {
-            throw new IllegalArgumentException("no line of " + String.join(", ", ions.species) + " falls between "
-                    + from + " and " + to + " (n <= " + nMax + "); widen the range or raise --n-max");
+        for (int z : abundance.keySet()) {
+            if (resolved.stream().noneMatch(ion -> ion.species().z() == z)) {
+                throw new IllegalArgumentException("--abundance names " + Elements.symbol(z)
+                        + ", which is not among --species");
+            }
         }
-        double scale = peakCounts / brightest;
-        for (int p = 0; p < expected.length; p++) {
-            expected[p] *= scale;
-        }
-        double[] counts = expected.clone();
+        addContinuum(builder, grid);
         if (!noNoise) {
-            Noise.apply(expected, readNoise, seed, counts);
+            option("--read-noise", () -> builder.noise(readNoise, seed));
         }
-        writeSpectrum(grid, expected, counts);
+        Scene scene;
+        try {
+            scene = builder.build();
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException(e.getMessage().replace("nMax", "--n-max"), e);
+        }
+        SyntheticSpectrum spectrum;
+        try {
+            spectrum = scene.render(threadCount);
+        } catch (IllegalArgumentException e) {
+            if (e.getMessage().startsWith("no line falls")) {
+                throw new IllegalArgumentException("no line of " + String.join(", ", ions.species) + " falls between "
+                        + from + " and " + to + " (n <= " + nMax + "); widen the range or raise --n-max", e);
+            }
+            throw e;
+        }
+        for (String note : scene.notes()) {
+            spec.commandLine().getErr().println("note: " + note);
+        }
+        spec.commandLine().getErr().flush();
+        if (format.equals("json")) {
+            emit(out, json(spectrum, scene));
+        } else {
+            writeSpectrum(spectrum);
+        }
         if (truth != null) {
-            writeTruth(scene, scale);
+            writeTruth(spectrum);
+        }
+        if (plot != null) {
+            drawPlot(spectrum);
         }
         return 0;
+    }
+
+    /** Runs a builder step, naming the option when the engine refuses its value. */
+    private static void option(String name, Runnable step) {
+        try {
+            step.run();
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException(name + ": " + e.getMessage(), e);
+        }
+    }
+
+    private Map<Integer, Double> abundances() {
+        Map<Integer, Double> result = new TreeMap<>();
+        for (String entry : abundances) {
+            for (String item : entry.split(",")) {
+                int eq = item.indexOf('=');
+                if (eq < 0) {
+                    throw new IllegalArgumentException("--abundance takes ELEMENT=NUMBER, e.g. He=0.1, got '" + item + "'");
+                }
+                String symbol = item.substring(0, eq).strip();
+                int z = Elements.atomicNumber(symbol).orElseThrow(() -> new IllegalArgumentException(
+                        "--abundance: unknown element '" + symbol + "' in '" + item + "'"));
+                double value;
+                try {
+                    value = Double.parseDouble(item.substring(eq + 1).strip());
+                } catch (NumberFormatException e) {
+                    throw new IllegalArgumentException("--abundance: '" + item.substring(eq + 1).strip()
+                            + "' is not a number in '" + item + "'");
+                }
+                if (!(value > 0) || Double.isInfinite(value)) {
+                    throw new IllegalArgumentException("--abundance of " + symbol + " must be positive, got " + value);
+                }
+                if (result.put(z, value) != null) {
+                    throw new IllegalArgumentException("--abundance gives " + symbol + " twice");
+                }
+            }
+        }
+        return result;
+    }
+
+    private void addContinuum(Scene.Builder builder, PixelGrid grid) throws IOException {
+        DoubleUnaryOperator density;
+        if (continuumFile != null) {
+            if (!continuumKind.equals("none")) {
+                throw new IllegalArgumentException("give --continuum or --continuum-file, not both");
+            }
+            density = ContinuumFile.read(continuumFile, grid.edge(0), grid.edge(grid.pixels()));
+        } else {
+            switch (continuumKind) {
+                case "none":
+                    return;
+                case "flat":
+                    density = nm -> 1;
+                    break;
+                case "blackbody":
+                    double t = continuumTemperature == null ? temperature : continuumTemperature;
+                    if (!(t > 0) || Double.isInfinite(t)) {
+                        throw new IllegalArgumentException("--continuum-temperature must be positive, got " + t);
+                    }
+                    Medium axisMedium = AxisMedium.of(medium);
+                    density = nm -> Continuum.planckPerWavelength(axisMedium.toVacuum(nm * 1e-9), t);
+                    break;
+                default:
+                    throw new IllegalArgumentException("--continuum must be none, flat or blackbody, got '"
+                            + continuumKind + "'");
+            }
+        }
+        option("--continuum-counts", () -> builder.continuum(density, continuumCounts));
     }
 
     /** A --from or --to value (any spectral unit) as a wavelength in nm in the axis medium. */
@@ -187,92 +321,18 @@ final class SynthCommand implements Callable<Integer> {
         return axisMedium.fromVacuum(PhysicalConstants.C / hertz) * 1e9;
     }
 
-    private double[] lorentzWidths(int lines) {
-        double[] widths = new double[lines];
-        Arrays.fill(widths, collisionalWidth);
-        return widths;
-    }
-
-    /** Lines of all species in the columns the renderer takes. */
-    private static final class Scene {
-        int size;
-        double[] position = new double[64];
-        double[] flux = new double[64];
-        double[] gaussian = new double[64];
-        String[] label = new String[64];
-
-        void add(double positionNm, double relativeFlux, double gaussianNm, String text) {
-            if (size == position.length) {
-                position = Arrays.copyOf(position, 2 * size);
-                flux = Arrays.copyOf(flux, 2 * size);
-                gaussian = Arrays.copyOf(gaussian, 2 * size);
-                label = Arrays.copyOf(label, 2 * size);
-            }
-            position[size] = positionNm;
-            flux[size] = relativeFlux;
-            gaussian[size] = gaussianNm;
-            label[size] = text;
-            size++;
-        }
-
-        double[] positions() {
-            return Arrays.copyOf(position, size);
-        }
-
-        double[] fluxes() {
-            return Arrays.copyOf(flux, size);
-        }
-
-        double[] gaussianWidths() {
-            return Arrays.copyOf(gaussian, size);
-        }
-    }
-
-    private void addLines(Scene scene, Ions.Ion ion, Medium axisMedium, double loNm, double hiNm) {
-        HydrogenLikeModel model = ion.model();
-        HydrogenLikeLines generator = HydrogenLikeLines.of(model);
-        double kT = PhysicalConstants.K * temperature;
-        double ground = model.energy(1, 0, 1);
-        // Partition function of the ion, cut off at n-max: sum of 2 n^2 exp(-(E_n - E_1) / kT).
-        double partition = 0;
-        for (int n = 1; n <= nMax; n++) {
-            partition += 2.0 * n * n * Math.exp(-(model.energy(n, 0, 1) - ground) / kT);
-        }
-        double doppler = dopplerFactor();
-        double vacuumLo = axisMedium.toVacuum(Math.max(loNm, 1e-3) * 1e-9) / doppler;
-        double vacuumHi = axisMedium.toVacuum(hiNm * 1e-9) / doppler;
-        LineTable table = generator.multiplets(nMax, PhysicalConstants.C / vacuumHi, PhysicalConstants.C / vacuumLo);
-        double mass = model.nucleus().massKg() + (model.nucleus().z() - ion.species().charge())
-                * PhysicalConstants.ELECTRON_MASS.value();
-        for (int i = 0; i < table.size(); i++) {
-            double upper = model.energy(table.upperN(i), 0, 1);
-            // Photons per second per emitter: population g exp(-E / kT) / Z times A.
-            double photons = table.upperWeight(i) * table.einsteinA(i) * Math.exp(-(upper - ground) / kT) / partition;
-            double nu = table.frequency(i);
-            double positionNm = axisMedium.fromVacuum(doppler * PhysicalConstants.C / nu) * 1e9;
-            double dopplerNm = positionNm * Broadening.dopplerFwhm(nu, temperature, mass) / nu;
-            scene.add(positionNm, photons, dopplerNm, ion.species().notation() + " " + table.seriesName(i));
-        }
-    }
-
-    /** The relativistic Doppler factor on wavelengths, observed over emitted. */
-    private double dopplerFactor() {
-        double beta = velocity * 1e3 / PhysicalConstants.C;
-        return Math.sqrt((1 + beta) / (1 - beta));
-    }
-
-    private void writeSpectrum(PixelGrid grid, double[] expected, double[] counts) throws IOException {
+    private void writeSpectrum(SyntheticSpectrum spectrum) throws IOException {
+        PixelGrid grid = spectrum.grid();
+        double[] expected = spectrum.expectedCounts();
+        double[] counts = spectrum.counts();
         StringWriter text = new StringWriter();
         PrintWriter w = new PrintWriter(text);
         w.println("# ritzwerk-spectrum 1");
         w.println("# axis: wavelength nm " + medium + " (pixel centres; " + gridKind + " pixels from "
                 + fmt(grid.edge(0)) + " to " + fmt(grid.edge(grid.pixels())) + ")");
-        w.println("# species: " + String.join(",", ions.species) + " (" + ions.model + " levels, n <= " + nMax + ")");
-        w.println("# temperature-k: " + temperature);
-        w.println("# resolving-power: " + resolvingPower);
-        w.println("# velocity-km-s: " + velocity);
-        w.println("# collisional-fwhm-nm: " + collisionalWidth);
-        w.println("# noise: " + (noNoise ? "none" : "poisson, read " + readNoise + " counts, seed " + seed));
+        for (Map.Entry<String, Object> entry : description().entrySet()) {
+            w.println("# " + entry.getKey() + ": " + entry.getValue());
+        }
         w.println("wavelength_nm,expected_counts,counts");
         for (int p = 0; p < grid.pixels(); p++) {
             w.println(fmt(grid.centre(p)) + "," + String.format(Locale.ROOT, "%.6g", expected[p]) + ","
@@ -282,19 +342,121 @@ final class SynthCommand implements Callable<Integer> {
         emit(out, text.toString());
     }
 
-    private void writeTruth(Scene scene, double scale) throws IOException {
+    /** The scene as written in the files' headers (CSV comments, the JSON "scene" object). */
+    private Map<String, Object> description() {
+        Map<String, Object> d = new LinkedHashMap<>();
+        d.put("species", String.join(",", ions.species));
+        d.put("model", ions.model + " levels, n <= " + nMax);
+        d.put("temperature-k", temperature);
+        d.put("electron-density-m3", electronDensity == null ? "none" : electronDensity);
+        d.put("abundance", abundances.isEmpty() ? "1 each" : String.join(",", abundances));
+        d.put("resolving-power", resolvingPower);
+        d.put("velocity-km-s", velocity);
+        d.put("collisional-fwhm-nm", collisionalWidth);
+        d.put("natural-widths", naturalWidths);
+        d.put("continuum", continuumFile != null ? "file " + continuumFile.getFileName() + ", brightest pixel "
+                + continuumCounts : continuumKind.equals("none") ? "none" : continuumKind + ", brightest pixel "
+                + continuumCounts);
+        d.put("noise", noNoise ? "none" : "poisson, read " + readNoise + " counts, seed " + seed);
+        return d;
+    }
+
+    private String json(SyntheticSpectrum spectrum, Scene scene) {
+        JsonMapper mapper = JsonMapper.builder().build();
+        ObjectNode root = mapper.createObjectNode();
+        root.put("format", "ritzwerk-spectrum");
+        root.put("version", 1);
+        ObjectNode axis = root.putObject("axis");
+        axis.put("quantity", "wavelength");
+        axis.put("unit", "nm");
+        axis.put("medium", medium);
+        axis.put("grid", gridKind);
+        ObjectNode sceneNode = root.putObject("scene");
+        for (Map.Entry<String, Object> entry : description().entrySet()) {
+            Object v = entry.getValue();
+            if (v instanceof Double) {
+                sceneNode.put(entry.getKey(), (Double) v);
+            } else if (v instanceof Boolean) {
+                sceneNode.put(entry.getKey(), (Boolean) v);
+            } else {
+                sceneNode.put(entry.getKey(), String.valueOf(v));
+            }
+        }
+        ArrayNode notes = root.putArray("notes");
+        scene.notes().forEach(notes::add);
+        PixelGrid grid = spectrum.grid();
+        ArrayNode edges = root.putArray("pixel_edges_nm");
+        for (int p = 0; p <= grid.pixels(); p++) {
+            edges.add(grid.edge(p));
+        }
+        ArrayNode centres = root.putArray("wavelength_nm");
+        for (int p = 0; p < grid.pixels(); p++) {
+            centres.add(grid.centre(p));
+        }
+        ArrayNode expected = root.putArray("expected_counts");
+        for (double v : spectrum.expectedCounts()) {
+            expected.add(v);
+        }
+        ArrayNode counts = root.putArray("counts");
+        for (double v : spectrum.counts()) {
+            counts.add(v);
+        }
+        ArrayNode lines = root.putArray("lines");
+        Scene.Lines l = spectrum.lines();
+        for (int i = 0; i < l.size(); i++) {
+            ObjectNode line = lines.addObject();
+            line.put("wavelength_nm", l.position(i));
+            line.put("counts", spectrum.lineCounts(i));
+            line.put("doppler_fwhm_nm", l.gaussianFwhm(i));
+            line.put("lorentz_fwhm_nm", l.lorentzFwhm(i));
+            line.put("line", l.label(i));
+        }
+        return mapper.writeValueAsString(root) + System.lineSeparator();
+    }
+
+    private void writeTruth(SyntheticSpectrum spectrum) throws IOException {
         StringWriter text = new StringWriter();
         PrintWriter w = new PrintWriter(text);
         w.println("# ritzwerk-spectrum-lines 1");
         w.println("# counts: the line's expected counts summed over all pixels (before noise; less where it");
         w.println("#   lies near or beyond an end of the spectrum)");
-        w.println("wavelength_nm,counts,doppler_fwhm_nm,line");
-        for (int i = 0; i < scene.size; i++) {
-            w.println(fmt(scene.position[i]) + "," + String.format(Locale.ROOT, "%.6g", scene.flux[i] * scale) + ","
-                    + String.format(Locale.ROOT, "%.4g", scene.gaussian[i]) + "," + scene.label[i]);
+        w.println("wavelength_nm,counts,doppler_fwhm_nm,lorentz_fwhm_nm,line");
+        Scene.Lines lines = spectrum.lines();
+        for (int i = 0; i < lines.size(); i++) {
+            w.println(fmt(lines.position(i)) + "," + String.format(Locale.ROOT, "%.6g", spectrum.lineCounts(i)) + ","
+                    + String.format(Locale.ROOT, "%.4g", lines.gaussianFwhm(i)) + ","
+                    + String.format(Locale.ROOT, "%.4g", lines.lorentzFwhm(i)) + "," + lines.label(i));
         }
         w.flush();
         emit(truth, text.toString());
+    }
+
+    private void drawPlot(SyntheticSpectrum spectrum) throws IOException {
+        PixelGrid grid = spectrum.grid();
+        double[] x = new double[grid.pixels()];
+        for (int p = 0; p < x.length; p++) {
+            x[p] = grid.centre(p);
+        }
+        // Label the strongest lines inside the range, at most 25.
+        Scene.Lines lines = spectrum.lines();
+        Integer[] order = new Integer[lines.size()];
+        for (int i = 0; i < order.length; i++) {
+            order[i] = i;
+        }
+        Arrays.sort(order, (a, b) -> Double.compare(spectrum.lineCounts(b), spectrum.lineCounts(a)));
+        List<Plots.Label> labels = new ArrayList<>();
+        double span = grid.edge(grid.pixels()) - grid.edge(0);
+        for (int i : order) {
+            double at = lines.position(i);
+            boolean crowded = labels.stream().anyMatch(label -> Math.abs(label.x() - at) < 0.012 * span);
+            if (labels.size() < 25 && !crowded && at > grid.edge(0) && at < grid.edge(grid.pixels())
+                    && spectrum.lineCounts(i) > 0) {
+                labels.add(new Plots.Label(at, lines.label(i)));
+            }
+        }
+        Plots.lineChart(plot, "Synthetic spectrum: " + String.join(", ", ions.species) + ", T = " + temperature + " K"
+                + (electronDensity == null ? "" : ", ne = " + electronDensity + " m^-3"),
+                "wavelength (nm, " + medium + ")", "counts per pixel", x, spectrum.counts(), labels);
     }
 
     private void emit(Path path, String content) throws IOException {

@@ -9,6 +9,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import org.junit.jupiter.api.Test;
@@ -120,7 +121,7 @@ class SynthCommandTest {
                 .err().contains("--medium must be vacuum or air, got 'water'"));
         CliTest.Run cold = CliTest.run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
                 "--temperature", "-3");
-        assertTrue(cold.err().contains("--temperature must be a positive number of kelvin"), cold.err());
+        assertTrue(cold.err().contains("--temperature: temperature must be positive and below 1e9 K, got -3.0"), cold.err());
     }
 
     @Test
@@ -140,7 +141,79 @@ class SynthCommandTest {
         assertEquals(restNm * Math.sqrt((1 + beta) / (1 - beta)), movingNm, 1e-9 * restNm);
         assertTrue(run.out().contains("# velocity-km-s: -1500.0\n# collisional-fwhm-nm: 0.05\n"), run.out());
         assertTrue(CliTest.run(concat(common, "--velocity", "40000")).err()
-                .contains("--velocity must be below a tenth of the speed of light"));
+                .contains("--velocity: velocity must be below a tenth of the speed of light"));
+    }
+
+    @Test
+    void jsonPlotAndPlasmaOptionsWorkTogether(@TempDir Path dir) throws IOException {
+        Path png = dir.resolve("scene.png");
+        CliTest.Run run = CliTest.run("synth", "--species", "H I,He II", "--from", "440 nm", "--to", "500 nm",
+                "--temperature", "25000", "--electron-density", "1e22", "--abundance", "He=0.1", "--pixels", "3000",
+                "--continuum", "blackbody", "--continuum-counts", "50", "--format", "json", "--plot", png.toString(),
+                "--seed", "3", "--threads", "2");
+        assertEquals(0, run.code(), run.err());
+        tools.jackson.databind.JsonNode root = tools.jackson.databind.json.JsonMapper.builder().build()
+                .readTree(run.out());
+        assertEquals("ritzwerk-spectrum", root.get("format").asString());
+        assertEquals(3000, root.get("counts").size());
+        assertEquals(3001, root.get("pixel_edges_nm").size());
+        assertEquals(1e22, root.get("scene").get("electron-density-m3").asDouble());
+        // H-beta carries its Stark width, 4.8 nm (1e22 / 1e23)^0.68116 = 1.0002 nm (Gigosos et al. 2003),
+        // written in the axis medium (vacuum here, so as is).
+        boolean beta = false;
+        for (tools.jackson.databind.JsonNode line : root.get("lines")) {
+            if (line.get("line").asString().equals("H I Balmer beta")) {
+                assertEquals(1.0002, line.get("lorentz_fwhm_nm").asDouble(), 1e-4);
+                beta = true;
+            }
+        }
+        assertTrue(beta);
+        // The continuum's brightest pixel, the bluest, expects 50 counts plus the Stark-broadened
+        // wing of H-gamma (434 nm), a few counts.
+        double bluest = root.get("expected_counts").get(0).asDouble();
+        assertTrue(bluest > 50 && bluest < 55, "bluest pixel " + bluest);
+        byte[] head = Arrays.copyOf(Files.readAllBytes(png), 8);
+        assertEquals("\u0089PNG", new String(head, 0, 4, StandardCharsets.ISO_8859_1));
+    }
+
+    @Test
+    void aContinuumFileOfYourOwn(@TempDir Path dir) throws IOException {
+        Path shape = dir.resolve("shape.csv");
+        Files.writeString(shape, "# a ramp\nwavelength_nm,density\n600,0\n700,10\n");
+        CliTest.Run run = CliTest.run("synth", "--species", "H I", "--from", "640 nm", "--to", "700 nm",
+                "--temperature", "8000", "--continuum-file", shape.toString(), "--continuum-counts", "30",
+                "--no-noise", "--pixels", "600");
+        assertEquals(0, run.code(), run.err());
+        double[][] rows = columns(run.out());
+        // The ramp's last pixel is its brightest: 30 counts, and no line reaches it.
+        assertEquals(30, rows[rows.length - 1][1], 1e-6);
+        Files.writeString(shape, "wavelength_nm,density\n600,0\n650,x\n");
+        CliTest.Run bad = CliTest.run("synth", "--species", "H I", "--from", "640 nm", "--to", "700 nm",
+                "--temperature", "8000", "--continuum-file", shape.toString());
+        assertEquals(2, bad.code());
+        assertTrue(bad.err().contains("shape.csv:3: density must be a finite number, got 'x'"), bad.err());
+        Files.writeString(shape, "wavelength_nm,density\n600,0\n650,1\n");
+        CliTest.Run shortFile = CliTest.run("synth", "--species", "H I", "--from", "640 nm", "--to", "700 nm",
+                "--temperature", "8000", "--continuum-file", shape.toString());
+        assertTrue(shortFile.err().contains("covers 600.0 to 650.0 nm but the spectrum spans"), shortFile.err());
+    }
+
+    @Test
+    void plasmaOptionErrorsNameTheOption() {
+        String[] common = {"synth", "--species", "H I", "--from", "640 nm", "--to", "670 nm", "--temperature", "8000"};
+        assertTrue(CliTest.run(concat(common, "--abundance", "Xq=2")).err()
+                .contains("--abundance: unknown element 'Xq'"));
+        assertTrue(CliTest.run(concat(common, "--abundance", "He=0.1")).err()
+                .contains("--abundance names He, which is not among --species"));
+        assertTrue(CliTest.run(concat(common, "--electron-density", "1e30")).err()
+                .contains("--electron-density: electron density must be positive and at most"));
+        assertTrue(CliTest.run(concat(common, "--natural-widths", "--n-max", "100")).err()
+                .contains("lower --n-max (100)"));
+        assertTrue(CliTest.run(concat(common, "--format", "xml")).err().contains("--format must be csv or json"));
+        CliTest.Run low = CliTest.run(concat(common, "--electron-density", "1e17", "--no-noise"));
+        assertEquals(0, low.code());
+        assertTrue(low.err().contains("note: electron density 1.0E17 m^-3 is below the Balmer Stark fit's range"),
+                low.err());
     }
 
     private static String[] lastRow(Path file) throws IOException {

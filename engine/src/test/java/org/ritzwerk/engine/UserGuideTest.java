@@ -18,6 +18,11 @@ import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.Noise;
 import org.ritzwerk.engine.synth.LineRenderer;
 import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.engine.synth.SyntheticSpectrum;
+import org.ritzwerk.engine.plasma.IonisationBalance;
+import org.ritzwerk.engine.profile.BalmerStark;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.profile.Broadening;
 import org.ritzwerk.engine.profile.Faddeeva;
 import org.ritzwerk.engine.profile.Profiles;
@@ -134,5 +139,33 @@ class UserGuideTest {
         Noise.apply(again, 4.0, 2026L, again);
         assertEquals(java.util.Arrays.toString(pixels), java.util.Arrays.toString(again));
         assertTrue(clean[0] > 0);
+    }
+
+    @Test
+    void aWholeScene() {
+        // Proton (CODATA 2018) and alpha particle (6.6446573357e-27 kg, CODATA 2018, from memory).
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(new Nucleus(1, 1, PhysicalConstants.PROTON_MASS.value(), 1,
+                OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018"), Tier.DIRAC);
+        HydrogenLikeModel heliumIon = HydrogenLikeModel.of(new Nucleus(2, 4, 6.6446573357e-27, 0,
+                OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018"), Tier.DIRAC);
+
+        Scene scene = Scene.builder(PixelGrid.linear(380, 700, 20_000))
+                .hydrogenLike(Species.parse("H I"), hydrogen, 1)
+                .hydrogenLike(Species.parse("He II"), heliumIon, 0.1)          // relative numbers of atoms
+                .temperature(25_000).electronDensity(1e22)                     // Saha balance, Stark widths
+                .medium(Medium.air()).instrument(Instrument.ofResolvingPower(8000))
+                .continuum(nm -> Continuum.planckPerWavelength(nm * 1e-9, 25_000), 100)
+                .noise(3.0, 42L)
+                .build();
+        SyntheticSpectrum spectrum = scene.render(4);                       // counts(), expectedCounts(), lines()
+
+        double[] hydrogenStages = IonisationBalance.hydrogen(hydrogen, 12_000, 1e21, 30);   // H I, H II
+        double ne = BalmerStark.electronDensity(BalmerStark.Line.BETA, 1.2);                // m^-3 from 1.2 nm
+
+        assertEquals(20_000, spectrum.counts().length);
+        assertTrue(scene.lines().size() > 20);
+        assertEquals(1, hydrogenStages[0] + hydrogenStages[1], 1e-15);
+        // 1e23 (1.2 / 4.8)^(1 / 0.68116) = 1.31e22 m^-3 (Gigosos et al. 2003 fit, by hand).
+        assertEquals(1.31e22, ne, 0.01e22);
     }
 }

@@ -1,0 +1,102 @@
+package org.ritzwerk.cli;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.List;
+import java.util.function.DoubleUnaryOperator;
+
+/**
+ * A continuum of the user's own: a CSV file with {@code #} comment lines, a header
+ * {@code wavelength_nm,density} and rows with rising wavelengths (axis medium) and densities
+ * that are finite and not negative, in any unit (only the shape matters). Between rows the
+ * density is linear.
+ */
+final class ContinuumFile {
+
+    private ContinuumFile() {
+    }
+
+    /**
+     * @param file the file
+     * @param lo   the spectrum's first pixel edge, nm; the file must reach it
+     * @param hi   the last pixel edge, nm; the file must reach it
+     * @return the density as a function of wavelength in nm
+     * @throws IOException when the file cannot be read
+     * @throws IllegalArgumentException naming the file, line and field of the first bad row
+     */
+    static DoubleUnaryOperator read(Path file, double lo, double hi) throws IOException {
+        List<String> text;
+        try {
+            text = Files.readAllLines(file, StandardCharsets.UTF_8);
+        } catch (java.nio.file.NoSuchFileException e) {
+            throw new IllegalArgumentException(file + ": no such file (--continuum-file)");
+        }
+        double[] x = new double[text.size()];
+        double[] y = new double[text.size()];
+        int n = 0;
+        boolean header = false;
+        for (int i = 0; i < text.size(); i++) {
+            String line = text.get(i).strip();
+            String where = file + ":" + (i + 1) + ": ";
+            if (line.isEmpty() || line.startsWith("#")) {
+                continue;
+            }
+            if (!header) {
+                if (!line.replace(" ", "").equals("wavelength_nm,density")) {
+                    throw new IllegalArgumentException(where + "expected the header 'wavelength_nm,density', got '"
+                            + line + "'");
+                }
+                header = true;
+                continue;
+            }
+            String[] cells = line.split(",", -1);
+            if (cells.length != 2) {
+                throw new IllegalArgumentException(where + "expected 2 fields (wavelength_nm,density), got "
+                        + cells.length);
+            }
+            x[n] = number(cells[0], where + "wavelength_nm");
+            y[n] = number(cells[1], where + "density");
+            if (y[n] < 0) {
+                throw new IllegalArgumentException(where + "density must not be negative, got " + cells[1].strip());
+            }
+            if (n > 0 && !(x[n] > x[n - 1])) {
+                throw new IllegalArgumentException(where + "wavelength_nm must rise from row to row, got "
+                        + cells[0].strip() + " after " + x[n - 1]);
+            }
+            n++;
+        }
+        if (n < 2) {
+            throw new IllegalArgumentException(file + ": needs at least two rows after the header, found " + n);
+        }
+        if (x[0] > lo || x[n - 1] < hi) {
+            throw new IllegalArgumentException(file + ": covers " + x[0] + " to " + x[n - 1]
+                    + " nm but the spectrum spans " + lo + " to " + hi + " nm");
+        }
+        double[] xs = Arrays.copyOf(x, n);
+        double[] ys = Arrays.copyOf(y, n);
+        return nm -> {
+            int k = Arrays.binarySearch(xs, nm);
+            if (k >= 0) {
+                return ys[k];
+            }
+            int i = Math.max(1, Math.min(xs.length - 1, -k - 1));
+            double t = (nm - xs[i - 1]) / (xs[i] - xs[i - 1]);
+            return ys[i - 1] + t * (ys[i] - ys[i - 1]);
+        };
+    }
+
+    private static double number(String cell, String where) {
+        try {
+            double v = Double.parseDouble(cell.strip());
+            if (Double.isFinite(v)) {
+                return v;
+            }
+        } catch (NumberFormatException e) {
+            // reported below
+        }
+        throw new IllegalArgumentException(where + " must be a finite number, got '" + cell.strip() + "'");
+    }
+}

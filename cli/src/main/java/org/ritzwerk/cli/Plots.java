@@ -1,0 +1,103 @@
+package org.ritzwerk.cli;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.awt.Font;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.List;
+import org.jfree.chart.ChartUtils;
+import org.jfree.chart.JFreeChart;
+import org.jfree.chart.annotations.XYTextAnnotation;
+import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.chart.ui.TextAnchor;
+import org.jfree.data.xy.XYSeries;
+import org.jfree.data.xy.XYSeriesCollection;
+
+/** PNG charts drawn with JFreeChart, headless. */
+final class Plots {
+
+    /** A text label at a position on the x axis, drawn above the data there. */
+    record Label(double x, String text) {
+    }
+
+    private Plots() {
+    }
+
+    /**
+     * A line chart of y against x, with labels, written as a PNG.
+     *
+     * @param file   the PNG to write
+     * @param title  chart title
+     * @param xTitle x axis title with its unit
+     * @param yTitle y axis title with its unit
+     * @param x      x values, ascending
+     * @param y      y values
+     * @param labels labels to draw (at most a few dozen read well)
+     * @throws IOException when the file cannot be written
+     */
+    static void lineChart(Path file, String title, String xTitle, String yTitle, double[] x, double[] y,
+            List<Label> labels) throws IOException {
+        System.setProperty("java.awt.headless", "true");
+        XYSeries series = new XYSeries(yTitle, false, true);
+        // A chart cannot show more points than it has pixels; keep each bin's extremes.
+        int bins = Math.min(x.length, 4000);
+        double yMax = 0;
+        for (int b = 0; b < bins; b++) {
+            int from = (int) ((long) x.length * b / bins);
+            int to = (int) ((long) x.length * (b + 1) / bins);
+            int lo = from;
+            int hi = from;
+            for (int i = from; i < to; i++) {
+                lo = y[i] < y[lo] ? i : lo;
+                hi = y[i] > y[hi] ? i : hi;
+            }
+            series.add(x[Math.min(lo, hi)], y[Math.min(lo, hi)]);
+            if (lo != hi) {
+                series.add(x[Math.max(lo, hi)], y[Math.max(lo, hi)]);
+            }
+            yMax = Math.max(yMax, y[hi]);
+        }
+        NumberAxis xAxis = new NumberAxis(xTitle);
+        xAxis.setAutoRangeIncludesZero(false);
+        NumberAxis yAxis = new NumberAxis(yTitle);
+        XYLineAndShapeRenderer renderer = new XYLineAndShapeRenderer(true, false);
+        renderer.setSeriesPaint(0, new Color(0x1f, 0x4e, 0x79));
+        renderer.setSeriesStroke(0, new BasicStroke(1.0f));
+        XYPlot plot = new XYPlot(new XYSeriesCollection(series), xAxis, yAxis, renderer);
+        plot.setBackgroundPaint(Color.WHITE);
+        plot.setDomainGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
+        plot.setRangeGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
+        Font font = new Font(Font.SANS_SERIF, Font.PLAIN, 11);
+        for (Label label : labels) {
+            int i = nearest(x, label.x());
+            XYTextAnnotation text = new XYTextAnnotation(label.text(), label.x(), y[i] + 0.03 * yMax);
+            text.setFont(font);
+            text.setRotationAngle(-Math.PI / 2);
+            text.setTextAnchor(TextAnchor.CENTER_LEFT);
+            text.setRotationAnchor(TextAnchor.CENTER_LEFT);
+            plot.addAnnotation(text);
+        }
+        yAxis.setUpperBound(yMax * 1.35 + (yMax == 0 ? 1 : 0));
+        JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, false);
+        chart.setBackgroundPaint(Color.WHITE);
+        ChartUtils.saveChartAsPNG(file.toFile(), chart, 1400, 700);
+    }
+
+    private static int nearest(double[] x, double at) {
+        int k = java.util.Arrays.binarySearch(x, at);
+        if (k >= 0) {
+            return k;
+        }
+        int i = -k - 1;
+        if (i == 0) {
+            return 0;
+        }
+        if (i == x.length) {
+            return x.length - 1;
+        }
+        return at - x[i - 1] < x[i] - at ? i - 1 : i;
+    }
+}
