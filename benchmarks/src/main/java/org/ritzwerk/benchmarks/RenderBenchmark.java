@@ -76,4 +76,12 @@ public class RenderBenchmark {
         renderer.render(position, flux, gaussian, lorentz, out);
         return out;
     }
+
+    /** @return the pixel fluxes, rendered on two threads (the same values bit for bit) */
+    @Benchmark
+    public double[] renderOnTwoThreads() {
+        java.util.Arrays.fill(out, 0);
+        renderer.render(position, flux, gaussian, lorentz, out, 2);
+        return out;
+    }
 }
