@@ -11,7 +11,7 @@ import picocli.CommandLine.Option;
 /** The --species and --model options shared by the commands on one-electron ions (a picocli mixin). */
 final class Ions {
 
-    @Option(names = "--species", required = true, paramLabel = "SPECIES",
+    @Option(names = "--species", paramLabel = "SPECIES",
             description = "One-electron ions, comma-separated or repeated: \"H I\", D, \"He II\", C5+.")
     List<String> species = new ArrayList<>();
 
@@ -19,8 +19,16 @@ final class Ions {
             description = "bohr, dirac, qed or hyperfine (default: ${DEFAULT-VALUE}).")
     String model;
 
-    /** @return the models of the ions named by the options, in the order given */
+    /** @return the models of the ions named by the options, in the order given; at least one */
     List<Ion> resolve() {
+        if (species.isEmpty()) {
+            throw new IllegalArgumentException("--species is required, e.g. --species \"H I\"");
+        }
+        return of(species, model);
+    }
+
+    /** @return the models of the ions named by the options, perhaps none */
+    List<Ion> resolveAny() {
         return of(species, model);
     }
 

@@ -18,6 +18,14 @@ import java.util.concurrent.Callable;
 import java.util.function.DoubleUnaryOperator;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.atom.Elements;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataSet;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.NuclearData;
+import org.ritzwerk.refdata.UserFiles;
 import org.ritzwerk.engine.synth.Continuum;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.PixelGrid;
@@ -57,11 +65,22 @@ final class SynthCommand implements Callable<Integer> {
     @Mixin
     Ions ions;
 
-    @Option(names = "--from", required = true, paramLabel = "QUANTITY", description = "One end of the spectrum.")
+    @Option(names = "--from", paramLabel = "QUANTITY", description = "One end of the spectrum (or give --dispersion).")
     String from;
 
-    @Option(names = "--to", required = true, paramLabel = "QUANTITY", description = "The other end.")
+    @Option(names = "--to", paramLabel = "QUANTITY", description = "The other end.")
     String to;
+
+    @Option(names = "--dispersion", paramLabel = "C0,C1,...",
+            description = {"Instead of --from/--to: pixel p (0-based, centre) sees c0 + c1 p + c2 p^2 + ... nm",
+                "in the axis medium, for --pixels pixels, as a spectrometer's dispersion does."})
+    String dispersion;
+
+    @Option(names = "--lines", paramLabel = "SET",
+            description = {"Also draw a line list: a data set id (e.g. lamp-ne-i) or a line-list file, with its",
+                "relative intensities (lines without one are left out). Repeatable. With --species too,",
+                "each list is scaled so its strongest line carries as many photons as the strongest ion line."})
+    List<String> lineSets = new ArrayList<>();
 
     @Option(names = "--medium", paramLabel = "MEDIUM", defaultValue = "vacuum",
             description = "Wavelengths of the pixel axis: vacuum or air (standard air). Default: ${DEFAULT-VALUE}.")
@@ -174,18 +193,7 @@ final class SynthCommand implements Callable<Integer> {
             throw new IllegalArgumentException("--threads must be 1 to 1024, got " + threadCount);
         }
         Medium axisMedium = AxisMedium.of(medium);
-        double oneEnd = axisNanometres(from, axisMedium);
-        double otherEnd = axisNanometres(to, axisMedium);
-        double lo = Math.min(oneEnd, otherEnd);
-        double hi = Math.max(oneEnd, otherEnd);
-        if (!(hi > lo)) {
-            throw new IllegalArgumentException("--from and --to are the same position; give a range");
-        }
-        PixelGrid grid = switch (gridKind) {
-            case "linear" -> PixelGrid.linear(lo, hi, pixels);
-            case "log" -> PixelGrid.logarithmic(lo, hi, pixels);
-            default -> throw new IllegalArgumentException("--grid must be linear or log, got '" + gridKind + "'");
-        };
+        PixelGrid grid = grid(axisMedium);
         Scene.Builder builder = Scene.builder(grid)
                 .medium(axisMedium)
                 .instrument(Instrument.ofResolvingPower(resolvingPower))
@@ -199,7 +207,10 @@ final class SynthCommand implements Callable<Integer> {
             option("--electron-density", () -> builder.electronDensity(electronDensity));
         }
         Map<Integer, Double> abundance = abundances();
-        List<Ions.Ion> resolved = ions.resolve();
+        List<Ions.Ion> resolved = ions.resolveAny();
+        if (resolved.isEmpty() && lineSets.isEmpty()) {
+            throw new IllegalArgumentException("give --species (one-electron ions), --lines (line lists), or both");
+        }
         for (Ions.Ion ion : resolved) {
             builder.hydrogenLike(ion.species(), ion.model(), abundance.getOrDefault(ion.species().z(), 1.0));
         }
@@ -209,6 +220,7 @@ final class SynthCommand implements Callable<Integer> {
                         + ", which is not among --species");
             }
         }
+        addLineLists(builder, resolved, grid);
         addContinuum(builder, grid);
         if (!noNoise) {
             option("--read-noise", () -> builder.noise(readNoise, seed));
@@ -224,8 +236,9 @@ final class SynthCommand implements Callable<Integer> {
             spectrum = scene.render(threadCount);
         } catch (IllegalArgumentException e) {
             if (e.getMessage().startsWith("no line falls")) {
-                throw new IllegalArgumentException("no line of " + String.join(", ", ions.species) + " falls between "
-                        + from + " and " + to + " (n <= " + nMax + "); widen the range or raise --n-max", e);
+                throw new IllegalArgumentException("no line of " + emitters() + " falls between "
+                        + (dispersion == null ? from + " and " + to : fmt(spectrumEdge(0)) + " nm and "
+                        + fmt(spectrumEdge(1)) + " nm") + " (n <= " + nMax + "); widen the range or raise --n-max", e);
             }
             throw e;
         }
@@ -245,6 +258,110 @@ final class SynthCommand implements Callable<Integer> {
             drawPlot(spectrum);
         }
         return 0;
+    }
+
+    private PixelGrid grid(Medium axisMedium) {
+        if (dispersion != null) {
+            if (from != null || to != null) {
+                throw new IllegalArgumentException("give --dispersion or --from/--to, not both");
+            }
+            if (!gridKind.equals("linear")) {
+                throw new IllegalArgumentException("--grid does not apply with --dispersion");
+            }
+            String[] cells = dispersion.split(",");
+            double[] c = new double[cells.length];
+            for (int k = 0; k < cells.length; k++) {
+                try {
+                    c[k] = Double.parseDouble(cells[k].strip());
+                } catch (NumberFormatException e) {
+                    throw new IllegalArgumentException("--dispersion: coefficient c" + k + " '" + cells[k].strip()
+                            + "' is not a number");
+                }
+            }
+            try {
+                return PixelGrid.dispersion(c, pixels);
+            } catch (IllegalArgumentException e) {
+                throw new IllegalArgumentException("--dispersion: " + e.getMessage(), e);
+            }
+        }
+        if (from == null || to == null) {
+            throw new IllegalArgumentException("give --from and --to (or --dispersion)");
+        }
+        double oneEnd = axisNanometres(from, axisMedium);
+        double otherEnd = axisNanometres(to, axisMedium);
+        double lo = Math.min(oneEnd, otherEnd);
+        double hi = Math.max(oneEnd, otherEnd);
+        if (!(hi > lo)) {
+            throw new IllegalArgumentException("--from and --to are the same position; give a range");
+        }
+        return switch (gridKind) {
+            case "linear" -> PixelGrid.linear(lo, hi, pixels);
+            case "log" -> PixelGrid.logarithmic(lo, hi, pixels);
+            default -> throw new IllegalArgumentException("--grid must be linear or log, got '" + gridKind + "'");
+        };
+    }
+
+    /** Adds each --lines set, one emitter per species in it, with its relative intensities. */
+    private void addLineLists(Scene.Builder builder, List<Ions.Ion> resolved, PixelGrid grid) throws IOException {
+        if (lineSets.isEmpty()) {
+            return;
+        }
+        // The strongest ion line's photon rate, to put the lists on a comparable scale.
+        double ionScale = 0;
+        if (!resolved.isEmpty()) {
+            Scene.Builder probe = Scene.builder(grid).medium(AxisMedium.of(medium)).nMax(nMax);
+            option("--temperature", () -> probe.temperature(temperature));
+            for (Ions.Ion ion : resolved) {
+                probe.hydrogenLike(ion.species(), ion.model(), 1);
+            }
+            Scene.Lines ionLines = probe.build().lines();
+            for (int i = 0; i < ionLines.size(); i++) {
+                ionScale = Math.max(ionScale, ionLines.photons(i));
+            }
+        }
+        DataRegistry registry = DataRegistry.discoverDefault();
+        for (String set : lineSets) {
+            Path path = Path.of(set);
+            DataSet data = Files.exists(path) ? UserFiles.read(path) : registry.load(set);
+            if (!(data instanceof LineList)) {
+                throw new IllegalArgumentException("--lines " + set + " is a " + data.info().kind().id()
+                        + " set, not a line list");
+            }
+            LineList list = (LineList) data;
+            double[] positions = new double[list.size()];
+            for (int i = 0; i < list.size(); i++) {
+                positions[i] = list.position(i);
+            }
+            double[] vacuum = new double[list.size()];
+            SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.NANOMETRE, Medium.vacuum(), vacuum);
+            double strongest = 0;
+            for (int i = 0; i < list.size(); i++) {
+                strongest = Math.max(strongest, list.intensity(i).orElse(0));
+            }
+            if (strongest == 0) {
+                throw new IllegalArgumentException("--lines " + set + " gives no line an intensity; synth needs them");
+            }
+            double scale = ionScale > 0 ? ionScale / strongest : 1;
+            for (Species species : list.coveredSpecies()) {
+                double[] nm = new double[list.size()];
+                double[] photons = new double[list.size()];
+                String[] labels = new String[list.size()];
+                int n = 0;
+                for (int i = 0; i < list.size(); i++) {
+                    if (list.species(i).equals(species) && list.intensity(i).isPresent()) {
+                        nm[n] = vacuum[i];
+                        photons[n] = list.intensity(i).getAsDouble() * scale;
+                        labels[n] = species.notation() + " " + list.position(i) + " "
+                                + list.unit().symbol() + " " + list.medium().label();
+                        n++;
+                    }
+                }
+                double mass = NuclearData.builtIn().nucleus(species).massKg()
+                        + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
+                builder.lineList(species.notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n), mass,
+                        Arrays.copyOf(labels, n));
+            }
+        }
     }
 
     /** Runs a builder step, naming the option when the engine refuses its value. */
@@ -328,7 +445,7 @@ final class SynthCommand implements Callable<Integer> {
         StringWriter text = new StringWriter();
         PrintWriter w = new PrintWriter(text);
         w.println("# ritzwerk-spectrum 1");
-        w.println("# axis: wavelength nm " + medium + " (pixel centres; " + gridKind + " pixels from "
+        w.println("# axis: wavelength nm " + medium + " (pixel centres; " + gridName() + " pixels from "
                 + fmt(grid.edge(0)) + " to " + fmt(grid.edge(grid.pixels())) + ")");
         for (Map.Entry<String, Object> entry : description().entrySet()) {
             w.println("# " + entry.getKey() + ": " + entry.getValue());
@@ -345,7 +462,8 @@ final class SynthCommand implements Callable<Integer> {
     /** The scene as written in the files' headers (CSV comments, the JSON "scene" object). */
     private Map<String, Object> description() {
         Map<String, Object> d = new LinkedHashMap<>();
-        d.put("species", String.join(",", ions.species));
+        d.put("species", ions.species.isEmpty() ? "none" : String.join(",", ions.species));
+        d.put("lines", lineSets.isEmpty() ? "none" : String.join(",", lineSets));
         d.put("model", ions.model + " levels, n <= " + nMax);
         d.put("temperature-k", temperature);
         d.put("electron-density-m3", electronDensity == null ? "none" : electronDensity);
@@ -370,7 +488,7 @@ final class SynthCommand implements Callable<Integer> {
         axis.put("quantity", "wavelength");
         axis.put("unit", "nm");
         axis.put("medium", medium);
-        axis.put("grid", gridKind);
+        axis.put("grid", gridName());
         ObjectNode sceneNode = root.putObject("scene");
         for (Map.Entry<String, Object> entry : description().entrySet()) {
             Object v = entry.getValue();
@@ -454,7 +572,7 @@ final class SynthCommand implements Callable<Integer> {
                 labels.add(new Plots.Label(at, lines.label(i)));
             }
         }
-        Plots.lineChart(plot, "Synthetic spectrum: " + String.join(", ", ions.species) + ", T = " + temperature + " K"
+        Plots.lineChart(plot, "Synthetic spectrum: " + emitters() + ", T = " + temperature + " K"
                 + (electronDensity == null ? "" : ", ne = " + electronDensity + " m^-3"),
                 "wavelength (nm, " + medium + ")", "counts per pixel", x, spectrum.counts(), labels);
     }
@@ -468,6 +586,20 @@ final class SynthCommand implements Callable<Integer> {
         try (Writer writer = Files.newBufferedWriter(path, StandardCharsets.UTF_8)) {
             writer.write(content);
         }
+    }
+
+    private String emitters() {
+        List<String> all = new ArrayList<>(ions.species);
+        all.addAll(lineSets);
+        return String.join(", ", all);
+    }
+
+    private double spectrumEdge(int end) {
+        return grid(AxisMedium.of(medium)).edge(end == 0 ? 0 : pixels);
+    }
+
+    private String gridName() {
+        return dispersion == null ? gridKind : "dispersion " + dispersion;
     }
 
     private static String fmt(double nm) {

@@ -216,6 +216,39 @@ class SynthCommandTest {
                 low.err());
     }
 
+    @Test
+    void aLampSeenThroughADispersionPolynomial() {
+        // Ne I 585.24879 nm air (lamp-ne-i, Sansonetti & Martin 2005) lands where the polynomial
+        // 540 + 0.06 p - 2e-6 p^2 reaches it: p = 862.16 (solved by hand below).
+        CliTest.Run run = CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "540,0.06,-2e-6",
+                "--pixels", "2048", "--medium", "air", "--temperature", "400", "--resolving-power", "4000",
+                "--no-noise");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("# axis: wavelength nm air (pixel centres; dispersion 540,0.06,-2e-6"), run.out());
+        double[][] rows = columns(run.out());
+        assertEquals(2048, rows.length);
+        double a = -2e-6;
+        double b = 0.06;
+        double c = 540 - 585.24879;
+        double expected = (-b + Math.sqrt(b * b - 4 * a * c)) / (2 * a);
+        expected = expected > 0 && expected < 2048 ? expected : (-b - Math.sqrt(b * b - 4 * a * c)) / (2 * a);
+        int top = (int) Math.round(expected);
+        double sum = 0;
+        double moment = 0;
+        for (int p = top - 6; p <= top + 6; p++) {
+            sum += rows[p][1];
+            moment += rows[p][1] * p;
+        }
+        // The centroid of a symmetric line in a gently curved dispersion: within 0.02 pixel.
+        assertEquals(expected, moment / sum, 0.02);
+        assertTrue(CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "540,0.06", "--from", "500 nm",
+                "--temperature", "400").err().contains("give --dispersion or --from/--to, not both"));
+        assertTrue(CliTest.run("synth", "--from", "500 nm", "--to", "600 nm", "--temperature", "400").err()
+                .contains("give --species (one-electron ions), --lines (line lists), or both"));
+        assertTrue(CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "540,x", "--temperature", "400").err()
+                .contains("--dispersion: coefficient c1 'x' is not a number"));
+    }
+
     private static String[] lastRow(Path file) throws IOException {
         List<String> lines = Files.readAllLines(file, StandardCharsets.UTF_8);
         return lines.get(lines.size() - 1).split(",");

@@ -250,6 +250,27 @@ public final class Scene {
          * @return this builder
          */
         public Builder lineList(String label, double[] vacuumNm, double[] photons, double emitterMassKg) {
+            String[] labels = new String[vacuumNm.length];
+            Arrays.fill(labels, label);
+            return lineList(label, vacuumNm, photons, emitterMassKg, labels);
+        }
+
+        /**
+         * As {@link #lineList(String, double[], double[], double)}, with a label for each line.
+         *
+         * @param label         a name for the list, used in error messages
+         * @param vacuumNm      vacuum wavelengths in nm, positive
+         * @param photons       photon rates, finite and not negative
+         * @param emitterMassKg the emitter's mass in kg, for the Doppler width
+         * @param lineLabels    one label per line, e.g. {@code Ne I 585.249 nm air}
+         * @return this builder
+         */
+        public Builder lineList(String label, double[] vacuumNm, double[] photons, double emitterMassKg,
+                String[] lineLabels) {
+            if (lineLabels.length != vacuumNm.length) {
+                throw new IllegalArgumentException(label + ": " + vacuumNm.length + " wavelengths but "
+                        + lineLabels.length + " labels");
+            }
             if (vacuumNm.length != photons.length) {
                 throw new IllegalArgumentException(label + ": " + vacuumNm.length + " wavelengths but "
                         + photons.length + " intensities");
@@ -265,7 +286,7 @@ public final class Scene {
                 }
             }
             positive(label + " emitter mass", emitterMassKg);
-            lists.add(new ListEmitter(label, vacuumNm.clone(), photons.clone(), emitterMassKg));
+            lists.add(new ListEmitter(label, vacuumNm.clone(), photons.clone(), emitterMassKg, lineLabels.clone()));
             return this;
         }
 
@@ -422,7 +443,7 @@ public final class Scene {
                     }
                     double nu = PhysicalConstants.C / (list.vacuumNm[i] * 1e-9);
                     double gauss = axis * Broadening.dopplerFwhm(nu, temperature, list.massKg) / nu;
-                    out.add(axis, list.photons[i], gauss, collisional, list.label);
+                    out.add(axis, list.photons[i], gauss, collisional, list.labels[i]);
                 }
             }
             if (out.outsideMedium > 0) {
@@ -534,7 +555,7 @@ public final class Scene {
     private record HydrogenLikeEmitter(Species species, HydrogenLikeModel model, double abundance) {
     }
 
-    private record ListEmitter(String label, double[] vacuumNm, double[] photons, double massKg) {
+    private record ListEmitter(String label, double[] vacuumNm, double[] photons, double massKg, String[] labels) {
     }
 
     /** Growable columns of lines. */
