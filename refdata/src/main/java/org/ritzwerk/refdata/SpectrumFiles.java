@@ -1,0 +1,278 @@
+package org.ritzwerk.refdata;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import tools.jackson.core.JacksonException;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * Reads Ritzwerk's spectrum format ({@code ritzwerk-spectrum}, version 1): counts per detector
+ * pixel, as {@code ritzwerk synth} writes it and as a spectrometer's export can be turned into.
+ *
+ * <p>CSV: {@code #} comment lines (the first, if any, {@code # ritzwerk-spectrum 1}; the others
+ * {@code # key: value} pairs kept as the header), then a header row naming the columns, then one
+ * row per pixel, in pixel order (the first row is pixel 0). Columns: {@code counts} (required),
+ * {@code counts_sigma} (the standard uncertainty of each count, optional), {@code pixel}
+ * (optional; when given it must be 0, 1, 2, ...), {@code wavelength_nm} and
+ * {@code expected_counts} (optional, kept for reference). Unknown columns are an error, so a
+ * misspelt one is not lost.
+ *
+ * <p>JSON: one object with {@code "format": "ritzwerk-spectrum"}, {@code "version": 1}, the
+ * array {@code counts}, and optionally {@code counts_sigma} and {@code wavelength_nm} of the same
+ * length (other members, such as those {@code synth} writes, are allowed and ignored).
+ *
+ * <p>Every bad row is reported with file, line and column name in one {@link DataFileException}.
+ * Stateless and thread-safe.
+ */
+public final class SpectrumFiles {
+
+    /** The format name. */
+    public static final String FORMAT = "ritzwerk-spectrum";
+    /** The format version. */
+    public static final int VERSION = 1;
+
+    private static final List<String> COLUMNS = List.of("pixel", "wavelength_nm", "expected_counts", "counts",
+            "counts_sigma");
+    private static final int MAX_PROBLEMS = 50;
+
+    private SpectrumFiles() {
+    }
+
+    /**
+     * A spectrum as read.
+     *
+     * @param source     the file name, for messages
+     * @param counts     counts per pixel
+     * @param sigmas     standard uncertainties per pixel, or null when the file gives none
+     * @param wavelengths wavelengths in nm per pixel as written, or null
+     * @param header     the {@code # key: value} lines of a CSV file, in order (empty for JSON)
+     */
+    public record Spectrum(String source, double[] counts, double[] sigmas, double[] wavelengths,
+            Map<String, String> header) {
+
+        /** @return number of pixels */
+        public int pixels() {
+            return counts.length;
+        }
+    }
+
+    /**
+     * @param file a CSV or JSON (by its first non-blank character) spectrum file
+     * @return the spectrum
+     * @throws DataFileException listing every problem, or when the file cannot be read
+     */
+    public static Spectrum read(Path file) {
+        String text;
+        try {
+            text = Files.readString(file, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new DataFileException(DataFileException.UNREADABLE, file.toString(), List.of(),
+                    "cannot read: " + e.getMessage());
+        }
+        String source = file.toString();
+        return text.stripLeading().startsWith("{") ? json(source, text) : csv(source, text);
+    }
+
+    static Spectrum csv(String source, String text) {
+        List<DataProblem> problems = new ArrayList<>();
+        Map<String, String> header = new LinkedHashMap<>();
+        String[] lines = text.split("\r?\n", -1);
+        int[] column = null;
+        List<double[]> rows = new ArrayList<>();
+        int dataRows = 0;
+        boolean first = true;
+        for (int i = 0; i < lines.length && problems.size() < MAX_PROBLEMS; i++) {
+            String raw = lines[i];
+            String line = raw.strip();
+            int lineNo = i + 1;
+            if (line.isEmpty()) {
+                continue;
+            }
+            if (line.startsWith("#")) {
+                String body = line.substring(1).strip();
+                if (first && body.startsWith(FORMAT)) {
+                    if (!body.equals(FORMAT + " " + VERSION)) {
+                        problems.add(new DataProblem(source, lineNo, 0, DataFileException.INVALID,
+                                "this reader knows " + FORMAT + " " + VERSION + ", the file says '" + body + "'", raw));
+                    }
+                } else if (first && body.startsWith("ritzwerk-")) {
+                    problems.add(new DataProblem(source, lineNo, 0, DataFileException.INVALID,
+                            "this is a " + body + " file, not a " + FORMAT + " file", raw));
+                } else {
+                    int colon = body.indexOf(':');
+                    if (colon > 0) {
+                        header.put(body.substring(0, colon).strip(), body.substring(colon + 1).strip());
+                    }
+                }
+                first = false;
+                continue;
+            }
+            first = false;
+            String[] cells = line.split(",", -1);
+            if (column == null) {
+                column = new int[COLUMNS.size()];
+                java.util.Arrays.fill(column, -1);
+                for (int c = 0; c < cells.length; c++) {
+                    String name = cells[c].strip();
+                    int k = COLUMNS.indexOf(name);
+                    if (k < 0) {
+                        problems.add(new DataProblem(source, lineNo, c + 1, DataFileException.INVALID,
+                                "unknown column '" + name + "'; the columns are " + String.join(", ", COLUMNS), raw));
+                    } else if (column[k] >= 0) {
+                        problems.add(new DataProblem(source, lineNo, c + 1, DataFileException.INVALID,
+                                "column '" + name + "' appears twice", raw));
+                    } else {
+                        column[k] = c;
+                    }
+                }
+                if (column[3] < 0) {
+                    problems.add(new DataProblem(source, lineNo, 0, DataFileException.INVALID,
+                            "the header row has no 'counts' column", raw));
+                    break;
+                }
+                continue;
+            }
+            int pixel = dataRows++;
+            if (cells.length != countColumns(column)) {
+                problems.add(new DataProblem(source, lineNo, 0, DataFileException.INVALID,
+                        "expected " + countColumns(column) + " fields, got " + cells.length, raw));
+                continue;
+            }
+            double[] row = new double[COLUMNS.size()];
+            boolean ok = true;
+            for (int k = 0; k < COLUMNS.size(); k++) {
+                if (column[k] < 0) {
+                    row[k] = Double.NaN;
+                    continue;
+                }
+                String cell = cells[column[k]].strip();
+                double v = parse(cell);
+                String name = COLUMNS.get(k);
+                String reason = null;
+                if (Double.isNaN(v)) {
+                    reason = name + " must be a finite number, got '" + cell + "'";
+                } else if (name.equals("counts_sigma") && !(v > 0)) {
+                    reason = "counts_sigma must be positive, got " + cell;
+                } else if (name.equals("pixel") && v != pixel) {
+                    reason = "pixel must count up from 0 in row order: expected " + pixel + ", got " + cell;
+                }
+                if (reason != null) {
+                    problems.add(new DataProblem(source, lineNo, column[k] + 1, DataFileException.INVALID, reason, raw));
+                    ok = false;
+                }
+                row[k] = v;
+            }
+            if (ok) {
+                rows.add(row);
+            }
+        }
+        if (problems.isEmpty() && column == null) {
+            throw new DataFileException(DataFileException.INVALID, source, List.of(),
+                    "no header row; expected a row naming the columns, e.g. 'counts' or 'pixel,counts'");
+        }
+        if (problems.isEmpty() && rows.isEmpty()) {
+            throw new DataFileException(DataFileException.INVALID, source, List.of(), "no pixels after the header row");
+        }
+        if (!problems.isEmpty()) {
+            throw new DataFileException(DataFileException.INVALID, source, problems, "");
+        }
+        int n = rows.size();
+        double[] counts = new double[n];
+        double[] sigmas = column[4] >= 0 ? new double[n] : null;
+        double[] wavelengths = column[1] >= 0 ? new double[n] : null;
+        for (int p = 0; p < n; p++) {
+            counts[p] = rows.get(p)[3];
+            if (sigmas != null) {
+                sigmas[p] = rows.get(p)[4];
+            }
+            if (wavelengths != null) {
+                wavelengths[p] = rows.get(p)[1];
+            }
+        }
+        return new Spectrum(source, counts, sigmas, wavelengths, header);
+    }
+
+    static Spectrum json(String source, String text) {
+        JsonNode root;
+        try {
+            root = JsonMapper.builder().build().readTree(text);
+        } catch (JacksonException e) {
+            throw new DataFileException(DataFileException.INVALID, source, List.of(),
+                    "not valid JSON: " + e.getOriginalMessage());
+        }
+        if (!root.isObject() || !FORMAT.equals(root.path("format").asString(null))) {
+            throw new DataFileException(DataFileException.INVALID, source, List.of(),
+                    "expected a JSON object with \"format\": \"" + FORMAT + "\"");
+        }
+        if (root.path("version").asInt(-1) != VERSION) {
+            throw new DataFileException(DataFileException.INVALID, source, List.of(),
+                    "this reader knows " + FORMAT + " version " + VERSION + ", the file says " + root.get("version"));
+        }
+        double[] counts = array(source, root, "counts", true);
+        double[] sigmas = array(source, root, "counts_sigma", false);
+        double[] wavelengths = array(source, root, "wavelength_nm", false);
+        for (double[] other : new double[][] {sigmas, wavelengths}) {
+            if (other != null && other.length != counts.length) {
+                throw new DataFileException(DataFileException.INVALID, source, List.of(),
+                        "counts has " + counts.length + " values but another array has " + other.length);
+            }
+        }
+        if (sigmas != null) {
+            for (int p = 0; p < sigmas.length; p++) {
+                if (!(sigmas[p] > 0)) {
+                    throw new DataFileException(DataFileException.INVALID, source, List.of(),
+                            "counts_sigma[" + p + "] must be positive, got " + sigmas[p]);
+                }
+            }
+        }
+        return new Spectrum(source, counts, sigmas, wavelengths, Map.of());
+    }
+
+    private static double[] array(String source, JsonNode root, String name, boolean required) {
+        JsonNode node = root.get(name);
+        if (node == null || node.isNull()) {
+            if (required) {
+                throw new DataFileException(DataFileException.INVALID, source, List.of(), "no \"" + name + "\" array");
+            }
+            return null;
+        }
+        if (!node.isArray() || node.isEmpty()) {
+            throw new DataFileException(DataFileException.INVALID, source, List.of(),
+                    "\"" + name + "\" must be a non-empty array of numbers");
+        }
+        double[] values = new double[node.size()];
+        for (int i = 0; i < values.length; i++) {
+            JsonNode v = node.get(i);
+            if (!v.isNumber() || !Double.isFinite(v.asDouble())) {
+                throw new DataFileException(DataFileException.INVALID, source, List.of(),
+                        name + "[" + i + "] must be a finite number, got " + v);
+            }
+            values[i] = v.asDouble();
+        }
+        return values;
+    }
+
+    private static int countColumns(int[] column) {
+        int max = -1;
+        for (int c : column) {
+            max = Math.max(max, c);
+        }
+        return max + 1;
+    }
+
+    private static double parse(String cell) {
+        try {
+            double v = Double.parseDouble(cell);
+            return Double.isFinite(v) ? v : Double.NaN;
+        } catch (NumberFormatException e) {
+            return Double.NaN;
+        }
+    }
+}

@@ -1,0 +1,79 @@
+package org.ritzwerk.refdata;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.net.URISyntaxException;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+
+/** The spectrum reader on good files and on broken fixtures named after their defect. */
+class SpectrumFilesTest {
+
+    private static Path fixture(String name) throws URISyntaxException {
+        return Path.of(SpectrumFilesTest.class.getResource("/spectra/" + name).toURI());
+    }
+
+    @Test
+    void readsCsvWithSigmasAndHeader() throws URISyntaxException {
+        SpectrumFiles.Spectrum s = SpectrumFiles.read(fixture("spectrum-good.csv"));
+        assertArrayEquals(new double[] {10, 12.5, 400, 11}, s.counts());
+        assertArrayEquals(new double[] {3.2, 3.5, 20, 3.3}, s.sigmas());
+        assertNull(s.wavelengths());
+        assertEquals("invented 8-pixel strip", s.header().get("detector"));
+    }
+
+    @Test
+    void readsJson() throws URISyntaxException {
+        SpectrumFiles.Spectrum s = SpectrumFiles.read(fixture("spectrum-good.json"));
+        assertArrayEquals(new double[] {1, 2, 3.5}, s.counts());
+        assertNull(s.sigmas());
+    }
+
+    @Test
+    void everyBadRowIsReportedWithLineAndColumn() throws URISyntaxException {
+        DataFileException e = assertThrows(DataFileException.class,
+                () -> SpectrumFiles.read(fixture("spectrum-bad-count-and-pixel-gap.csv")));
+        assertEquals(DataFileException.INVALID, e.code());
+        assertEquals(2, e.problems().size(), e.getMessage());
+        assertEquals(4, e.problems().get(0).line());
+        assertEquals(2, e.problems().get(0).column());
+        assertTrue(e.problems().get(0).reason().contains("counts must be a finite number, got 'abc'"));
+        assertEquals(6, e.problems().get(1).line());
+        assertTrue(e.problems().get(1).reason().contains("pixel must count up from 0 in row order: expected 3, got 4"),
+                e.problems().get(1).reason());
+    }
+
+    @Test
+    void aMisspeltColumnIsNotIgnored() throws URISyntaxException {
+        DataFileException e = assertThrows(DataFileException.class,
+                () -> SpectrumFiles.read(fixture("spectrum-misspelt-column.csv")));
+        assertTrue(e.getMessage().contains("unknown column 'count'"), e.getMessage());
+        assertTrue(e.getMessage().contains("spectrum-misspelt-column.csv:2:2"), e.getMessage());
+    }
+
+    @Test
+    void anotherFormatIsNamed() throws URISyntaxException {
+        DataFileException e = assertThrows(DataFileException.class,
+                () -> SpectrumFiles.read(fixture("spectrum-wrong-format.csv")));
+        assertTrue(e.getMessage().contains("this is a ritzwerk-peaks 1 file, not a ritzwerk-spectrum file"),
+                e.getMessage());
+    }
+
+    @Test
+    void jsonArraysMustAgreeInLength() throws URISyntaxException {
+        DataFileException e = assertThrows(DataFileException.class,
+                () -> SpectrumFiles.read(fixture("spectrum-json-length-mismatch.json")));
+        assertTrue(e.getMessage().contains("counts has 3 values but another array has 2"), e.getMessage());
+    }
+
+    @Test
+    void aMissingFileIsUnreadable() {
+        DataFileException e = assertThrows(DataFileException.class,
+                () -> SpectrumFiles.read(Path.of("no-such-spectrum.csv")));
+        assertEquals(DataFileException.UNREADABLE, e.code());
+    }
+}
