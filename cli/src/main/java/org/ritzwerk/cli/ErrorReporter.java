@@ -6,7 +6,7 @@ import picocli.CommandLine;
 /**
  * Turns failures into one clear message on standard error: bad input (a {@link RitzwerkException}
  * or a refused argument) exits with 2 and no stack trace; anything else is a bug, reported with
- * exit code 1 and the stack trace only when {@code RITZWERK_DEBUG} is set.
+ * exit code 1. The stack trace is printed only with {@code --debug} (or {@code RITZWERK_DEBUG} set).
  */
 final class ErrorReporter implements CommandLine.IExecutionExceptionHandler {
 
@@ -18,15 +18,28 @@ final class ErrorReporter implements CommandLine.IExecutionExceptionHandler {
     @Override
     public int handleExecutionException(Exception ex, CommandLine commandLine, CommandLine.ParseResult parseResult) {
         String command = commandLine.getCommandSpec().qualifiedName();
+        boolean debug = debug(parseResult);
         if (ex instanceof RitzwerkException || ex instanceof IllegalArgumentException) {
             commandLine.getErr().println(command + ": " + ex.getMessage());
+            if (debug) {
+                ex.printStackTrace(commandLine.getErr());
+            }
             return BAD_INPUT;
         }
         commandLine.getErr().println(command + ": internal error: " + ex
-                + " (please report it; set RITZWERK_DEBUG=1 for the stack trace)");
-        if (System.getenv("RITZWERK_DEBUG") != null) {
+                + (debug ? "" : " (please report it; run again with --debug for the stack trace)"));
+        if (debug) {
             ex.printStackTrace(commandLine.getErr());
         }
         return INTERNAL;
+    }
+
+    private static boolean debug(CommandLine.ParseResult parseResult) {
+        for (CommandLine.ParseResult p = parseResult; p != null; p = p.subcommand()) {
+            if (p.hasMatchedOption("--debug")) {
+                return true;
+            }
+        }
+        return System.getenv("RITZWERK_DEBUG") != null;
     }
 }

@@ -21,6 +21,10 @@ final class RitzwerkCommand implements Runnable {
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
+    @CommandLine.Option(names = "--debug", scope = CommandLine.ScopeType.INHERIT,
+            description = "On failure, also print the stack trace (for bug reports).")
+    boolean debug;
+
     @Override
     public void run() {
         spec.commandLine().usage(spec.commandLine().getOut());

@@ -233,7 +233,8 @@ final class SynthCommand implements Callable<Integer> {
         }
         SyntheticSpectrum spectrum;
         try {
-            spectrum = scene.render(threadCount);
+            spectrum = scene.render(threadCount, Progress.on(spec.commandLine().getErr(),
+                    "synth: rendering " + scene.lines().size() + " lines onto " + grid.pixels() + " pixels"));
         } catch (IllegalArgumentException e) {
             if (e.getMessage().startsWith("no line falls")) {
                 throw new IllegalArgumentException("no line of " + emitters() + " falls between "

@@ -1,6 +1,7 @@
 package org.ritzwerk.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
@@ -144,5 +145,16 @@ class CliTest {
         assertTrue(demo.out().contains("an invented scenario"), demo.out());
         assertEquals(5, demo.out().lines().filter(line -> line.matches("\\d+\\.\\d+\\(\\d+\\) .*")).count(),
                 demo.out());
+    }
+
+    @Test
+    void debugAddsTheStackTraceAndOnlyThen() {
+        Run plain = run("convert", "656.28 furlongs", "--to", "nm vacuum");
+        assertEquals(2, plain.code());
+        assertFalse(plain.err().contains("\tat "), plain.err());
+        Run debug = run("convert", "656.28 furlongs", "--to", "nm vacuum", "--debug");
+        assertEquals(2, debug.code());
+        assertTrue(debug.err().contains("unknown unit 'furlongs'"), debug.err());
+        assertTrue(debug.err().contains("\tat org.ritzwerk"), debug.err());
     }
 }

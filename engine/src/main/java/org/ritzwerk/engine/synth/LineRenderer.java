@@ -6,6 +6,7 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.function.DoubleConsumer;
 import org.ritzwerk.engine.profile.Profiles;
 
 /**
@@ -81,16 +82,33 @@ public final class LineRenderer {
      */
     public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out,
             int threads) {
+        render(position, flux, gaussianFwhm, lorentzFwhm, out, threads, null);
+    }
+
+    /**
+     * As {@link #render(double[], double[], double[], double[], double[], int)}, telling
+     * {@code progress} (on the caller's thread) the fraction of pixels done as blocks finish.
+     *
+     * @param progress told the fraction done, 0 to 1, in order; null for none
+     */
+    public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out,
+            int threads, DoubleConsumer progress) {
         if (threads < 1 || threads > 1024) {
             throw new IllegalArgumentException("threads must be 1 to 1024, got " + threads);
         }
-        if (threads == 1) {
-            render(position, flux, gaussianFwhm, lorentzFwhm, out);
-            return;
-        }
         // Every line is checked before any is drawn, so a refused call leaves out as it was.
         checkAll(position, flux, gaussianFwhm, lorentzFwhm, out);
-        int blocks = Math.min(out.length, 4 * threads);
+        int blocks = progress == null && threads == 1 ? 1 : Math.min(out.length, 16 * threads);
+        if (threads == 1) {
+            for (int b = 0; b < blocks; b++) {
+                renderBlock(position, flux, gaussianFwhm, lorentzFwhm, out, blockStart(out.length, b, blocks),
+                        blockStart(out.length, b + 1, blocks));
+                if (progress != null) {
+                    progress.accept((b + 1.0) / blocks);
+                }
+            }
+            return;
+        }
         ExecutorService pool = Executors.newFixedThreadPool(threads, task -> {
             Thread thread = new Thread(task, "ritzwerk-render");
             thread.setDaemon(true);
@@ -99,12 +117,15 @@ public final class LineRenderer {
         try {
             List<Future<?>> parts = new ArrayList<>();
             for (int b = 0; b < blocks; b++) {
-                int from = (int) ((long) out.length * b / blocks);
-                int to = (int) ((long) out.length * (b + 1) / blocks);
+                int from = blockStart(out.length, b, blocks);
+                int to = blockStart(out.length, b + 1, blocks);
                 parts.add(pool.submit(() -> renderBlock(position, flux, gaussianFwhm, lorentzFwhm, out, from, to)));
             }
-            for (Future<?> part : parts) {
-                part.get();
+            for (int b = 0; b < blocks; b++) {
+                parts.get(b).get();
+                if (progress != null) {
+                    progress.accept((b + 1.0) / blocks);
+                }
             }
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
@@ -114,6 +135,10 @@ public final class LineRenderer {
         } finally {
             pool.shutdownNow();
         }
+    }
+
+    private static int blockStart(int pixels, int block, int blocks) {
+        return (int) ((long) pixels * block / blocks);
     }
 
     private void checkAll(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm,

@@ -3,6 +3,7 @@ package org.ritzwerk.engine.synth;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.function.DoubleConsumer;
 import java.util.function.DoubleUnaryOperator;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
@@ -104,10 +105,22 @@ public final class Scene {
      *         continuum, or a continuum density is unusable
      */
     public SyntheticSpectrum render(int threads) {
+        return render(threads, null);
+    }
+
+    /**
+     * As {@link #render(int)}, telling {@code progress} (on the caller's thread) the fraction of
+     * the line rendering done.
+     *
+     * @param threads  threads for the line rendering, 1 to 1024
+     * @param progress told the fraction done, 0 to 1; null for none
+     * @return the rendered spectrum
+     */
+    public SyntheticSpectrum render(int threads, DoubleConsumer progress) {
         int pixels = grid.pixels();
         double[] lineFlux = new double[pixels];
         new LineRenderer(grid, instrument, window).render(lines.position, lines.photons, lines.gaussian,
-                lines.lorentz, lineFlux, threads);
+                lines.lorentz, lineFlux, threads, progress);
         double brightest = 0;
         for (double v : lineFlux) {
             brightest = Math.max(brightest, v);

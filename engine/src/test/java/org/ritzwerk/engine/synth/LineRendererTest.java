@@ -130,7 +130,7 @@ class LineRendererTest {
         // Lines overlapping each other and the block borders, with Lorentzian wings across the
         // whole grid, so every pixel sums many lines: the order of the sums must not change.
         java.util.SplittableRandom random = new java.util.SplittableRandom(31);
-        int lines = 3000;
+        int lines = 400;
         double[] position = new double[lines];
         double[] flux = new double[lines];
         double[] gauss = new double[lines];
@@ -141,13 +141,16 @@ class LineRendererTest {
             gauss[i] = 0.001 + 0.05 * random.nextDouble();
             lorentz[i] = i % 3 == 0 ? 0 : 0.02 * random.nextDouble();
         }
-        PixelGrid grid = PixelGrid.logarithmic(400, 420, 20_011);
-        LineRenderer renderer = new LineRenderer(grid, Instrument.ofResolvingPower(20_000), 200);
+        PixelGrid grid = PixelGrid.logarithmic(400, 420, 8_011);
+        LineRenderer renderer = new LineRenderer(grid, Instrument.ofResolvingPower(20_000), 100);
         double[] single = new double[grid.pixels()];
         renderer.render(position, flux, gauss, lorentz, single);
-        for (int threads : new int[] {2, 3, 8}) {
+        for (int threads : new int[] {1, 2, 3, 8}) {
             double[] parallel = new double[grid.pixels()];
-            renderer.render(position, flux, gauss, lorentz, parallel, threads);
+            java.util.List<Double> told = new java.util.ArrayList<>();
+            renderer.render(position, flux, gauss, lorentz, parallel, threads, told::add);
+            assertEquals(1.0, told.get(told.size() - 1));
+            assertTrue(told.size() >= 16, "progress told " + told.size() + " times");
             for (int p = 0; p < single.length; p++) {
                 assertEquals(Double.doubleToRawLongBits(single[p]), Double.doubleToRawLongBits(parallel[p]),
                         threads + " threads, pixel " + p);
