@@ -10,6 +10,11 @@ import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.annotations.XYTextAnnotation;
 import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.plot.ValueMarker;
+import org.jfree.chart.renderer.xy.XYErrorRenderer;
+import org.jfree.chart.util.ShapeUtils;
+import org.jfree.data.xy.YIntervalSeries;
+import org.jfree.data.xy.YIntervalSeriesCollection;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.chart.ui.TextAnchor;
@@ -84,6 +89,55 @@ final class Plots {
         JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, false);
         chart.setBackgroundPaint(Color.WHITE);
         ChartUtils.saveChartAsPNG(file.toFile(), chart, 1400, 700);
+    }
+
+    /**
+     * A scatter chart of residuals with error bars: used points filled, rejected ones as crosses,
+     * and the zero line.
+     *
+     * @param file     the PNG to write
+     * @param title    chart title
+     * @param xTitle   x axis title
+     * @param yTitle   y axis title
+     * @param used     points {x, y, sigma} that were used
+     * @param rejected points {x, y, sigma} that were rejected
+     * @throws IOException when the file cannot be written
+     */
+    static void residuals(Path file, String title, String xTitle, String yTitle, List<double[]> used,
+            List<double[]> rejected) throws IOException {
+        System.setProperty("java.awt.headless", "true");
+        YIntervalSeriesCollection data = new YIntervalSeriesCollection();
+        YIntervalSeries usedSeries = new YIntervalSeries("used");
+        for (double[] p : used) {
+            double s = Double.isFinite(p[2]) ? p[2] : 0;
+            usedSeries.add(p[0], p[1], p[1] - s, p[1] + s);
+        }
+        YIntervalSeries rejectedSeries = new YIntervalSeries("rejected");
+        for (double[] p : rejected) {
+            double s = Double.isFinite(p[2]) ? p[2] : 0;
+            rejectedSeries.add(p[0], p[1], p[1] - s, p[1] + s);
+        }
+        data.addSeries(usedSeries);
+        data.addSeries(rejectedSeries);
+        NumberAxis xAxis = new NumberAxis(xTitle);
+        xAxis.setAutoRangeIncludesZero(false);
+        NumberAxis yAxis = new NumberAxis(yTitle);
+        XYErrorRenderer renderer = new XYErrorRenderer();
+        renderer.setDrawXError(false);
+        renderer.setSeriesPaint(0, new Color(0x1f, 0x4e, 0x79));
+        renderer.setSeriesPaint(1, new Color(0xb0, 0x3a, 0x2e));
+        renderer.setSeriesShape(0, new java.awt.geom.Ellipse2D.Double(-3, -3, 6, 6));
+        renderer.setSeriesShape(1, ShapeUtils.createDiagonalCross(4, 0.6f));
+        renderer.setDefaultShapesVisible(true);
+        renderer.setDefaultLinesVisible(false);
+        XYPlot plot = new XYPlot(data, xAxis, yAxis, renderer);
+        plot.setBackgroundPaint(Color.WHITE);
+        plot.setDomainGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
+        plot.setRangeGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
+        plot.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(1.0f)));
+        JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, true);
+        chart.setBackgroundPaint(Color.WHITE);
+        ChartUtils.saveChartAsPNG(file.toFile(), chart, 1200, 600);
     }
 
     private static int nearest(double[] x, double at) {

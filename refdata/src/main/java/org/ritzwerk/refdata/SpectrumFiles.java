@@ -21,8 +21,8 @@ import tools.jackson.databind.json.JsonMapper;
  * row per pixel, in pixel order (the first row is pixel 0). Columns: {@code counts} (required),
  * {@code counts_sigma} (the standard uncertainty of each count, optional), {@code pixel}
  * (optional; when given it must be 0, 1, 2, ...), {@code wavelength_nm} and
- * {@code expected_counts} (optional, kept for reference). Unknown columns are an error, so a
- * misspelt one is not lost.
+ * {@code expected_counts}, {@code wavelength_sigma_nm} (optional, kept for reference).
+ * Unknown columns are an error, so a misspelt one is not lost.
  *
  * <p>JSON: one object with {@code "format": "ritzwerk-spectrum"}, {@code "version": 1}, the
  * array {@code counts}, and optionally {@code counts_sigma} and {@code wavelength_nm} of the same
@@ -39,7 +39,7 @@ public final class SpectrumFiles {
     public static final int VERSION = 1;
 
     private static final List<String> COLUMNS = List.of("pixel", "wavelength_nm", "expected_counts", "counts",
-            "counts_sigma");
+            "counts_sigma", "wavelength_sigma_nm");
     private static final int MAX_PROBLEMS = 50;
 
     private SpectrumFiles() {
