@@ -1,7 +1,9 @@
 package org.ritzwerk.engine.calibrate;
 
 import java.util.Arrays;
+import java.util.HashMap;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Objects;
 
 /**
@@ -23,8 +25,9 @@ import java.util.Objects;
  * predicted peak is matched to the nearest line of the whole list (one-to-one, the closer peak
  * wins) when within {@code tolerance} pixels, and a polynomial of degree 1, then 2, then up to
  * {@code maxDegree} (as matches and span allow) is refitted, until the window covers the detector
- * and the matches stop changing. The hypothesis that matches most strong peaks wins (ties: the
- * smaller RMS). The search is exhaustive and has no random part: the same input gives the same
+ * and the matches stop changing. The grown hypothesis that matches most of all the peaks wins
+ * (ties: more strong peaks, then the smaller RMS); counting every peak, not only the strong ones
+ * that seeded the search, keeps strong contaminating lines from steering the choice. The search is exhaustive and has no random part: the same input gives the same
  * answer.
  *
  * <p><b>Refinement.</b> The winner is re-matched against every peak and every line, and
@@ -311,8 +314,26 @@ public final class LampMatcher {
         return String.format(Locale.ROOT, "%d lines, %.6g to %.6g nm", lines.size(), lo, hi);
     }
 
+    /** The pairs a seed matched in its first round (per strong peak, a line or -1), and the direction. */
+    private record GrowthKey(int sign, int[] lines) {
+        @Override
+        public boolean equals(Object other) {
+            return other instanceof GrowthKey k && k.sign == sign && Arrays.equals(k.lines, lines);
+        }
+
+        @Override
+        public int hashCode() {
+            return 31 * sign + Arrays.hashCode(lines);
+        }
+
+        @Override
+        public String toString() {
+            return "GrowthKey[" + sign + ", " + Arrays.toString(lines) + "]";
+        }
+    }
+
     /** One grown hypothesis: the polynomial and how many strong peaks it matches. */
-    private record Candidate(double[] coefficients, int strongMatched, double rms, int sign) {
+    private record Candidate(double[] coefficients, int strongMatched, int allMatched, double rms, int sign) {
     }
 
     /** The search over one prior. */
@@ -332,6 +353,7 @@ public final class LampMatcher {
         private final double mid;
         private final double half;
         private long hypotheses;
+        private final Map<GrowthKey, Candidate> grown = new HashMap<>();
 
         Search(double[] centre, double[] intensity, int pixels, LampLines lines, Prior searchPrior) {
             this.centre = centre;
@@ -429,8 +451,9 @@ public final class LampMatcher {
             if (b == null) {
                 return a;
             }
-            if (a == null || b.strongMatched > a.strongMatched
-                    || (b.strongMatched == a.strongMatched && b.rms < a.rms)) {
+            if (a == null || b.allMatched > a.allMatched
+                    || (b.allMatched == a.allMatched && b.strongMatched > a.strongMatched)
+                    || (b.allMatched == a.allMatched && b.strongMatched == a.strongMatched && b.rms < a.rms)) {
                 return b;
             }
             return a;
@@ -453,6 +476,7 @@ public final class LampMatcher {
             int previous = -1;
             boolean previousCovered = false;
             int count = 0;
+            GrowthKey key = null;
             for (int round = 0; round < MAX_GROW_ROUNDS; round++) {
                 double extend = Math.max(hi - lo, pixels / 20.0);
                 double from = lo - extend;
@@ -462,6 +486,14 @@ public final class LampMatcher {
                 // the right solution is also seeded elsewhere, where peaks are denser.
                 if (count < (round == 0 ? MIN_MATCHES : 3)) {
                     return null;
+                }
+                if (round == 0) {
+                    // From here on the growth depends only on the pairs matched, so seeds that
+                    // match the same pairs end in the same candidate: grow it once.
+                    key = new GrowthKey(sign, matchedLine.clone());
+                    if (grown.containsKey(key)) {
+                        return grown.get(key);
+                    }
                 }
                 double first = Double.POSITIVE_INFINITY;
                 double last = Double.NEGATIVE_INFINITY;
@@ -492,17 +524,21 @@ public final class LampMatcher {
                 previous = count;
                 previousCovered = covered;
             }
-            if (!withinPrior(a, sign)) {
-                return null;
-            }
-            double sum = 0;
-            for (int k = 0; k < strongPixel.length; k++) {
-                if (matchedLine[k] >= 0) {
-                    double r = residualPixels(a, strongPixel[k], windowNm[matchedLine[k]]);
-                    sum += r * r;
+            Candidate result = null;
+            if (withinPrior(a, sign)) {
+                double sum = 0;
+                for (int k = 0; k < strongPixel.length; k++) {
+                    if (matchedLine[k] >= 0) {
+                        double r = residualPixels(a, strongPixel[k], windowNm[matchedLine[k]]);
+                        sum += r * r;
+                    }
                 }
+                int all = assign(a, centre, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
+                        new int[centre.length]);
+                result = new Candidate(a, count, all, Math.sqrt(sum / count), sign);
             }
-            return new Candidate(a, count, Math.sqrt(sum / count), sign);
+            grown.put(key, result);
+            return result;
         }
 
         private int degreeFor(int count, double spanFraction) {
