@@ -27,10 +27,14 @@ import java.util.List;
  * (at most {@link #withMaxBlend maxBlend} per fit; a longer chain is split at its widest gap) as
  * a sum of pixel-integrated Gaussians of one common width on a local straight line, by
  * Levenberg-Marquardt (see {@code GaussianBlendFit}). The common width assumes the instrument
- * profile varies little over a blend (common practice).</li>
- * <li>Accept: a component is kept when its fitted height is at least threshold times sigma_bg, its
- * flux positive, its centre inside its window and its width between 0.15 pixel and half the
- * window; otherwise the weakest offending component is dropped and the rest refitted.
+ * profile varies little over a blend (common practice). Lines closer than about 1.3 FWHM show no
+ * dip and are fitted as one (wider) line; the fit's chi-square then usually flags it
+ * {@link PeakFlag#POOR_FIT}.</li>
+ * <li>Accept: a component is kept when its height (the counts it puts in a pixel centred on it)
+ * is at least threshold times sigma_bg, its flux at least threshold times the flux's own
+ * standard uncertainty (which keeps one-pixel noise spikes out), its centre inside its window
+ * and its width between 0.15 pixel and half the window; otherwise the weakest offending
+ * component is dropped and the rest refitted.
  * Candidates whose fit fails outright are reported in {@link Peaks#unfitted()}.</li>
  * </ol>
  *
