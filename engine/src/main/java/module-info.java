@@ -5,7 +5,9 @@
  */
 module org.ritzwerk.engine {
     requires transitive org.ritzwerk.api;
+    requires commons.math3;
 
+    exports org.ritzwerk.engine.calibrate;
     exports org.ritzwerk.engine.convert;
     exports org.ritzwerk.engine.hydrogenic;
     exports org.ritzwerk.engine.identify;

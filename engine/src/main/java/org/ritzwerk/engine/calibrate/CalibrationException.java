@@ -1,0 +1,35 @@
+package org.ritzwerk.engine.calibrate;
+
+import org.ritzwerk.RitzwerkException;
+
+/**
+ * A wavelength calibration that cannot be made from the data given: too few peaks or lines, no
+ * solution within the stated prior, or a lamp line list that does not explain the spectrum. The
+ * {@link #code() code} tells which; the message gives the figures (counts, ranges, inlier
+ * fractions) and, where the search found one, the solution that lies outside the prior.
+ *
+ * <p>Plain precondition violations (NaN counts, arrays of different lengths) are reported with
+ * {@link IllegalArgumentException} instead.
+ */
+public final class CalibrationException extends RitzwerkException {
+    private static final long serialVersionUID = 1L;
+
+    /** Code: fewer peaks than a solution needs (at least 4). */
+    public static final String TOO_FEW_PEAKS = "calibrate.too-few-peaks";
+    /** Code: fewer lamp lines within the prior's wavelength range than a solution needs (at least 4). */
+    public static final String TOO_FEW_LINES = "calibrate.too-few-lines";
+    /** Code: the best pairing matched fewer than 4 peaks to lines. */
+    public static final String TOO_FEW_MATCHES = "calibrate.too-few-matches";
+    /** Code: no solution within the prior; a solution outside it explains the peaks (named in the message). */
+    public static final String OUTSIDE_PRIOR = "calibrate.outside-prior";
+    /** Code: no solution, within the prior or outside it, explains enough of the strongest peaks. */
+    public static final String LAMP_MISMATCH = "calibrate.lamp-mismatch";
+
+    /**
+     * @param code    one of the codes above
+     * @param message what failed, with the figures
+     */
+    public CalibrationException(String code, String message) {
+        super(code, message);
+    }
+}

@@ -1,0 +1,329 @@
+package org.ritzwerk.engine.calibrate;
+
+import java.util.Arrays;
+import java.util.Objects;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * Fits a {@link DispersionSolution} to (pixel, wavelength) pairs: weighted least squares of a
+ * polynomial in the scaled pixel x = (p - centre) / halfRange, where centre and halfRange map the
+ * pairs' pixel range onto [-1, 1] (for conditioning), with iterative sigma clipping.
+ *
+ * <p><b>Weights.</b> Pair i weighs 1 / s_i^2 with
+ * {@code s_i^2 = (D(p_i) sigma_p,i)^2 + sigma_lambda,i^2}: the centroid's standard uncertainty
+ * carried through the local dispersion D = d lambda / d p (first order), combined with the
+ * line's own uncertainty. D comes from the previous pass (an unweighted fit first; the weights
+ * are then updated twice). Without any uncertainties (both arrays null) every pair weighs the
+ * same and the covariance comes from the scatter alone.
+ *
+ * <p><b>Covariance.</b> (A^T W A)^-1 multiplied by max(1, chi^2 / (n - k)) (n used pairs, k
+ * coefficients): stated uncertainties are trusted unless the scatter shows they are too small,
+ * in which case all are inflated by the Birge ratio squared (R. T. Birge, Phys. Rev. 40, 207
+ * (1932); common practice). Unweighted fits are always scaled by chi^2 / (n - k).
+ *
+ * <p><b>Degree.</b> Either fixed ({@link #ofDegree(int)}) or chosen from 1 .. maxDegree by the
+ * corrected Akaike information criterion ({@link #automatic(int)}), in its form for residuals of
+ * unknown overall scale, {@code AICc = n ln(chi^2 / n) + 2k + 2k(k + 1) / (n - k - 1)}
+ * (C. M. Hurvich and C.-L. Tsai, Biometrika 76, 297 (1989); K. P. Burnham and D. R. Anderson,
+ * Model Selection and Multimodel Inference, 2nd ed., Springer 2002, sec. 2.4), so an overall
+ * error in the stated uncertainties does not change the choice. A degree is tried only when
+ * n &gt;= k + 2. AICc is preferred to BIC for the small samples of lamp calibrations (tens of
+ * lines), where BIC tends to underfit (Burnham and Anderson, sec. 6.4).
+ *
+ * <p><b>Clipping.</b> After each fit the normalised residuals z_i = r_i / s_i are scaled by
+ * t = max(1, 1.4826 median |z_i|) (robust, so outliers do not hide themselves); the single worst
+ * pair with |z| &gt; k t is rejected and the fit repeated (the degree is chosen afresh when
+ * automatic), at most maxIterations times, and never below k + 2 used pairs. Rejecting one pair
+ * per pass keeps a gross outlier from dragging good pairs out with it. Rejected pairs stay in the
+ * solution, flagged.
+ *
+ * <p>Immutable and thread-safe.
+ */
+public final class DispersionFit {
+
+    /** The highest degree accepted. */
+    public static final int MAX_DEGREE = 9;
+    /** Default clipping threshold in (robustly scaled) standard deviations. */
+    public static final double DEFAULT_CLIP = 3.5;
+    /** Default most pairs rejected (clipping passes). */
+    public static final int DEFAULT_CLIP_ITERATIONS = 20;
+
+    private static final double CHI_FLOOR = 1e-20;
+
+    private final int degree;
+    private final int maxDegree;
+    private final double clip;
+    private final int clipIterations;
+
+    private DispersionFit(int degree, int maxDegree, double clip, int clipIterations) {
+        this.degree = degree;
+        this.maxDegree = maxDegree;
+        this.clip = clip;
+        this.clipIterations = clipIterations;
+    }
+
+    /**
+     * @param degree the polynomial degree, 1 to {@value #MAX_DEGREE}
+     * @return a fit of that degree with the default clipping (3.5, 20 passes)
+     */
+    public static DispersionFit ofDegree(int degree) {
+        checkDegree(degree);
+        return new DispersionFit(degree, degree, DEFAULT_CLIP, DEFAULT_CLIP_ITERATIONS);
+    }
+
+    /**
+     * @param maxDegree the highest degree tried, 1 to {@value #MAX_DEGREE}
+     * @return a fit choosing its degree by AICc, with the default clipping
+     */
+    public static DispersionFit automatic(int maxDegree) {
+        checkDegree(maxDegree);
+        return new DispersionFit(-1, maxDegree, DEFAULT_CLIP, DEFAULT_CLIP_ITERATIONS);
+    }
+
+    private static void checkDegree(int degree) {
+        if (degree < 1 || degree > MAX_DEGREE) {
+            throw new IllegalArgumentException("dispersion degree must be 1 to " + MAX_DEGREE + ", got " + degree);
+        }
+    }
+
+    /**
+     * @param k             threshold in robustly scaled standard deviations, finite and &gt;= 1
+     * @param maxIterations most clipping passes (one pair rejected per pass), &gt;= 0; 0 for none
+     * @return a copy with that clipping
+     */
+    public DispersionFit withClipping(double k, int maxIterations) {
+        if (!(k >= 1) || Double.isInfinite(k)) {
+            throw new IllegalArgumentException("clipping threshold must be finite and >= 1, got " + k);
+        }
+        if (maxIterations < 0) {
+            throw new IllegalArgumentException("clipping passes must be >= 0, got " + maxIterations);
+        }
+        return new DispersionFit(degree, maxDegree, k, maxIterations);
+    }
+
+    /** @return a copy that rejects nothing */
+    public DispersionFit withoutClipping() {
+        return new DispersionFit(degree, maxDegree, clip, 0);
+    }
+
+    /** @return the fixed degree, or -1 when chosen automatically */
+    public int degree() {
+        return degree;
+    }
+
+    /** @return the highest degree tried (the fixed degree when fixed) */
+    public int maxDegree() {
+        return maxDegree;
+    }
+
+    /**
+     * @param pixel             centroids in pixels (pixel i centred at i), finite
+     * @param pixelSigma        their standard uncertainties in pixels (&gt;= 0), or null
+     * @param wavelengthNm      the reference wavelengths in nm, finite and positive
+     * @param wavelengthSigmaNm their standard uncertainties in nm (&gt;= 0), or null
+     * @param medium            the medium of the reference wavelengths
+     * @return the solution
+     * @throws IllegalArgumentException for arrays of different lengths, naming the first
+     *         unusable element, for a pair whose combined uncertainty is 0 when uncertainties are
+     *         given, or for too few pairs or distinct pixels for the degree (k + 1 pairs at least)
+     */
+    public DispersionSolution fit(double[] pixel, double[] pixelSigma, double[] wavelengthNm,
+            double[] wavelengthSigmaNm, Medium medium) {
+        Objects.requireNonNull(medium, "medium");
+        int n = pixel.length;
+        check(pixel, pixelSigma, wavelengthNm, wavelengthSigmaNm);
+        boolean weighted = pixelSigma != null || wavelengthSigmaNm != null;
+        int lowestDegree = degree > 0 ? degree : 1;
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (double p : pixel) {
+            lo = Math.min(lo, p);
+            hi = Math.max(hi, p);
+        }
+        long distinct = Arrays.stream(pixel).distinct().count();
+        if (n < lowestDegree + 2 || distinct < lowestDegree + 1) {
+            throw new IllegalArgumentException("a degree-" + lowestDegree + " dispersion fit needs at least "
+                    + (lowestDegree + 2) + " pairs at " + (lowestDegree + 1) + " distinct pixels, got " + n
+                    + " pairs at " + distinct);
+        }
+        double centre = 0.5 * (lo + hi);
+        double half = Math.max(0.5, 0.5 * (hi - lo));
+        double[] x = new double[n];
+        for (int i = 0; i < n; i++) {
+            x[i] = (pixel[i] - centre) / half;
+        }
+        boolean[] use = new boolean[n];
+        Arrays.fill(use, true);
+        int used = n;
+        Pass pass = null;
+        double[] criterion = new double[0];
+        for (int iteration = 0; ; iteration++) {
+            if (degree > 0) {
+                pass = weightedFit(x, pixelSigma, wavelengthNm, wavelengthSigmaNm, use, degree, half, weighted);
+            } else {
+                criterion = new double[maxDegree + 1];
+                Arrays.fill(criterion, Double.NaN);
+                pass = null;
+                for (int d = 1; d <= maxDegree && used >= d + 3; d++) {
+                    Pass candidate = weightedFit(x, pixelSigma, wavelengthNm, wavelengthSigmaNm, use, d, half,
+                            weighted);
+                    if (candidate == null) {
+                        break;
+                    }
+                    int k = d + 1;
+                    double chi = Math.max(candidate.solution.chiSquare(), CHI_FLOOR * used);
+                    criterion[d] = used * Math.log(chi / used) + 2 * k + 2.0 * k * (k + 1) / (used - k - 1);
+                    if (pass == null || criterion[d] < criterion[pass.degree()]) {
+                        pass = candidate;
+                    }
+                }
+                if (pass == null) {
+                    pass = weightedFit(x, pixelSigma, wavelengthNm, wavelengthSigmaNm, use, 1, half, weighted);
+                }
+            }
+            if (pass == null) {
+                throw new IllegalArgumentException("the pairs do not determine a degree-" + lowestDegree
+                        + " polynomial (too few distinct pixels among the " + used + " used)");
+            }
+            if (iteration >= clipIterations || used - 1 < pass.degree() + 3) {
+                break;
+            }
+            int worst = worstOutlier(pass, x, wavelengthNm, use);
+            if (worst < 0) {
+                break;
+            }
+            use[worst] = false;
+            used--;
+        }
+        double[] a = pass.solution.coefficients();
+        int k = a.length;
+        int dof = used - k;
+        double chi = pass.solution.chiSquare();
+        double reduced = dof > 0 ? chi / dof : Double.NaN;
+        double scale;
+        if (weighted) {
+            scale = dof > 0 ? Math.max(1, reduced) : 1;
+        } else {
+            scale = dof > 0 ? reduced : Double.NaN;
+        }
+        double[][] covariance = pass.solution.covariance();
+        for (double[] row : covariance) {
+            for (int j = 0; j < k; j++) {
+                row[j] *= scale;
+            }
+        }
+        double[] residual = new double[n];
+        double[] sigma = new double[n];
+        boolean[] rejected = new boolean[n];
+        for (int i = 0; i < n; i++) {
+            residual[i] = wavelengthNm[i] - PolynomialLeastSquares.evaluate(a, x[i]);
+            sigma[i] = weighted ? 1 / Math.sqrt(pass.weight[i]) : Double.NaN;
+            rejected[i] = !use[i];
+        }
+        double usedLo = Double.POSITIVE_INFINITY;
+        double usedHi = Double.NEGATIVE_INFINITY;
+        for (int i = 0; i < n; i++) {
+            if (use[i]) {
+                usedLo = Math.min(usedLo, pixel[i]);
+                usedHi = Math.max(usedHi, pixel[i]);
+            }
+        }
+        return new DispersionSolution(centre, half, a, covariance, scale, medium, chi, dof, usedLo, usedHi,
+                pixel.clone(), wavelengthNm.clone(), sigma, residual, rejected, criterion);
+    }
+
+    private record Pass(PolynomialLeastSquares.Solution solution, double[] weight) {
+        int degree() {
+            return solution.coefficients().length - 1;
+        }
+    }
+
+    /**
+     * An unweighted fit, then two passes with weights from the dispersion of the pass before.
+     * Weights are computed for every pair (used or not), so rejected pairs can be judged.
+     */
+    private static Pass weightedFit(double[] x, double[] pixelSigma, double[] wavelengthNm, double[] lineSigma,
+            boolean[] use, int degree, double half, boolean weighted) {
+        PolynomialLeastSquares.Solution solution = PolynomialLeastSquares.fit(x, wavelengthNm, null, use, degree);
+        if (solution == null) {
+            return null;
+        }
+        int n = x.length;
+        double[] weight = new double[n];
+        if (!weighted) {
+            Arrays.fill(weight, 1);
+            return new Pass(solution, weight);
+        }
+        for (int pass = 0; pass < 2; pass++) {
+            for (int i = 0; i < n; i++) {
+                double dispersion = PolynomialLeastSquares.derivative(solution.coefficients(), x[i]) / half;
+                double sp = pixelSigma == null ? 0 : pixelSigma[i] * dispersion;
+                double sl = lineSigma == null ? 0 : lineSigma[i];
+                weight[i] = 1 / (sp * sp + sl * sl);
+            }
+            PolynomialLeastSquares.Solution next = PolynomialLeastSquares.fit(x, wavelengthNm, weight, use, degree);
+            if (next == null) {
+                return null;
+            }
+            solution = next;
+        }
+        return new Pass(solution, weight);
+    }
+
+    private int worstOutlier(Pass pass, double[] x, double[] wavelengthNm, boolean[] use) {
+        int n = x.length;
+        double[] z = new double[n];
+        double[] absolute = new double[n];
+        int m = 0;
+        for (int i = 0; i < n; i++) {
+            z[i] = (wavelengthNm[i] - PolynomialLeastSquares.evaluate(pass.solution.coefficients(), x[i]))
+                    * Math.sqrt(pass.weight[i]);
+            if (use[i]) {
+                absolute[m++] = Math.abs(z[i]);
+            }
+        }
+        double scale = Math.max(1, Baseline.MAD_TO_SIGMA * Baseline.median(absolute, m));
+        int worst = -1;
+        double worstZ = clip * scale;
+        for (int i = 0; i < n; i++) {
+            if (use[i] && Math.abs(z[i]) > worstZ) {
+                worstZ = Math.abs(z[i]);
+                worst = i;
+            }
+        }
+        return worst;
+    }
+
+    private static void check(double[] pixel, double[] pixelSigma, double[] wavelengthNm, double[] wavelengthSigma) {
+        int n = pixel.length;
+        if (wavelengthNm.length != n || (pixelSigma != null && pixelSigma.length != n)
+                || (wavelengthSigma != null && wavelengthSigma.length != n)) {
+            throw new IllegalArgumentException("pixels, pixel uncertainties, wavelengths and wavelength uncertainties "
+                    + "must have one value per pair: " + n + ", " + (pixelSigma == null ? "-" : pixelSigma.length)
+                    + ", " + wavelengthNm.length + ", " + (wavelengthSigma == null ? "-" : wavelengthSigma.length));
+        }
+        for (int i = 0; i < n; i++) {
+            if (!Double.isFinite(pixel[i])) {
+                throw new IllegalArgumentException("pair " + i + ": pixel must be finite, got " + pixel[i]);
+            }
+            if (!(wavelengthNm[i] > 0) || Double.isInfinite(wavelengthNm[i])) {
+                throw new IllegalArgumentException("pair " + i + ": wavelength must be finite and positive (nm), got "
+                        + wavelengthNm[i]);
+            }
+            double sp = pixelSigma == null ? 0 : pixelSigma[i];
+            double sl = wavelengthSigma == null ? 0 : wavelengthSigma[i];
+            if (!(sp >= 0) || Double.isInfinite(sp)) {
+                throw new IllegalArgumentException("pair " + i + ": pixel uncertainty must be finite and >= 0, got "
+                        + sp);
+            }
+            if (!(sl >= 0) || Double.isInfinite(sl)) {
+                throw new IllegalArgumentException("pair " + i + ": wavelength uncertainty must be finite and >= 0 (nm), "
+                        + "got " + sl);
+            }
+            if ((pixelSigma != null || wavelengthSigma != null) && sp == 0 && sl == 0) {
+                throw new IllegalArgumentException("pair " + i + " has no uncertainty (pixel and wavelength "
+                        + "uncertainties both 0): give one, or pass null for both to fit unweighted");
+            }
+        }
+    }
+}

@@ -1,0 +1,435 @@
+package org.ritzwerk.engine.calibrate;
+
+import java.util.Objects;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * A pixel-to-wavelength solution: a polynomial in the scaled pixel variable
+ * <pre>
+ *   x = (p - centre) / halfRange,     lambda(p) = sum_j a_j x^j   (nm)
+ * </pre>
+ * with the covariance of a_j, and (when it came from a {@link DispersionFit}) the pairs it was
+ * fitted to, their residuals and which were rejected by clipping.
+ *
+ * <p><b>Units and conventions.</b> Pixels are 0-based with pixel i centred at i (edges at
+ * i -+ 1/2). Wavelengths are in nm in the {@link #medium() medium} of the line list used (air for
+ * the usual lamp tables). Dispersion is in nm per pixel.
+ *
+ * <p><b>Uncertainty.</b> {@link #wavelengthSigmaAt(double)} is sqrt(v^T C v) with
+ * v = (1, x, x^2, ...) and C the coefficients' covariance: the standard uncertainty of the
+ * solution itself at that pixel, not of a single new measurement there. It grows quickly outside
+ * the fitted range [{@link #lowestPixel()}, {@link #highestPixel()}], where the polynomial is
+ * extrapolated.
+ *
+ * <p>Immutable and thread-safe; array accessors return copies. Apply one solution to any number
+ * of spectra taken with the same set-up via {@link #pixelCentreWavelengths(int)},
+ * {@link #pixelEdgeWavelengths(int)} or {@link #wavelengthsAt(double[], double[])}.
+ */
+public final class DispersionSolution {
+
+    private final double centre;
+    private final double halfRange;
+    private final double[] coefficients;
+    private final double[][] covariance;
+    private final double covarianceScale;
+    private final Medium medium;
+    private final double chiSquare;
+    private final int degreesOfFreedom;
+    private final double lowestPixel;
+    private final double highestPixel;
+    private final double[] pixel;
+    private final double[] wavelength;
+    private final double[] sigma;
+    private final double[] residual;
+    private final boolean[] rejected;
+    private final double[] criterion;
+
+    DispersionSolution(double centre, double halfRange, double[] coefficients, double[][] covariance,
+            double covarianceScale, Medium medium, double chiSquare, int degreesOfFreedom, double lowestPixel,
+            double highestPixel, double[] pixel, double[] wavelength, double[] sigma, double[] residual,
+            boolean[] rejected, double[] criterion) {
+        this.centre = centre;
+        this.halfRange = halfRange;
+        this.coefficients = coefficients;
+        this.covariance = covariance;
+        this.covarianceScale = covarianceScale;
+        this.medium = medium;
+        this.chiSquare = chiSquare;
+        this.degreesOfFreedom = degreesOfFreedom;
+        this.lowestPixel = lowestPixel;
+        this.highestPixel = highestPixel;
+        this.pixel = pixel;
+        this.wavelength = wavelength;
+        this.sigma = sigma;
+        this.residual = residual;
+        this.rejected = rejected;
+        this.criterion = criterion;
+    }
+
+    /**
+     * A solution from stored coefficients (for example read back from a calibration file), with
+     * no fitted pairs: {@link #size()} is 0 and the fit statistics are NaN.
+     *
+     * @param centrePixel  the centre of the scaled variable in pixels, finite
+     * @param halfRange    the scale of the scaled variable in pixels, finite and positive
+     * @param coefficients a_0 .. a_d in nm, finite, at least two
+     * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, symmetric, finite; or null
+     *                     for unknown (then {@link #wavelengthSigmaAt(double)} is NaN)
+     * @param lowestPixel  lowest pixel of the range the solution is valid for
+     * @param highestPixel highest pixel of that range, above the lowest
+     * @param medium       the medium of the wavelengths
+     * @return the solution
+     * @throws IllegalArgumentException naming the first unusable argument
+     */
+    public static DispersionSolution of(double centrePixel, double halfRange, double[] coefficients,
+            double[][] covariance, double lowestPixel, double highestPixel, Medium medium) {
+        Objects.requireNonNull(medium, "medium");
+        if (!Double.isFinite(centrePixel)) {
+            throw new IllegalArgumentException("centre pixel must be finite, got " + centrePixel);
+        }
+        if (!(halfRange > 0) || Double.isInfinite(halfRange)) {
+            throw new IllegalArgumentException("half range must be finite and positive (pixels), got " + halfRange);
+        }
+        if (coefficients.length < 2) {
+            throw new IllegalArgumentException("a dispersion polynomial needs at least two coefficients, got "
+                    + coefficients.length);
+        }
+        for (int j = 0; j < coefficients.length; j++) {
+            if (!Double.isFinite(coefficients[j])) {
+                throw new IllegalArgumentException("coefficient a" + j + " is not finite: " + coefficients[j]);
+            }
+        }
+        int k = coefficients.length;
+        double[][] c = new double[k][k];
+        if (covariance == null) {
+            for (double[] row : c) {
+                java.util.Arrays.fill(row, Double.NaN);
+            }
+        } else {
+            if (covariance.length != k) {
+                throw new IllegalArgumentException("the covariance must be " + k + " x " + k + ", got "
+                        + covariance.length + " rows");
+            }
+            for (int i = 0; i < k; i++) {
+                if (covariance[i].length != k) {
+                    throw new IllegalArgumentException("covariance row " + i + " must have " + k + " entries, got "
+                            + covariance[i].length);
+                }
+                for (int j = 0; j < k; j++) {
+                    if (!Double.isFinite(covariance[i][j]) || covariance[i][j] != covariance[j][i]) {
+                        throw new IllegalArgumentException("covariance entry (" + i + ", " + j
+                                + ") must be finite and symmetric, got " + covariance[i][j]);
+                    }
+                    c[i][j] = covariance[i][j];
+                }
+            }
+        }
+        if (!(Double.isFinite(lowestPixel) && Double.isFinite(highestPixel) && highestPixel > lowestPixel)) {
+            throw new IllegalArgumentException("the valid range needs finite lowest < highest pixel, got "
+                    + lowestPixel + " to " + highestPixel);
+        }
+        return new DispersionSolution(centrePixel, halfRange, coefficients.clone(), c, 1, medium, Double.NaN, 0,
+                lowestPixel, highestPixel, new double[0], new double[0], new double[0], new double[0], new boolean[0],
+                new double[0]);
+    }
+
+    /** @return the polynomial degree */
+    public int degree() {
+        return coefficients.length - 1;
+    }
+
+    /** @return the pixel at which the scaled variable x is 0 */
+    public double centrePixel() {
+        return centre;
+    }
+
+    /** @return the pixels per unit of the scaled variable x */
+    public double halfRange() {
+        return halfRange;
+    }
+
+    /** @return a_0 .. a_d of the polynomial in the scaled variable, nm, a copy */
+    public double[] scaledCoefficients() {
+        return coefficients.clone();
+    }
+
+    /**
+     * The same polynomial in the raw pixel, lambda(p) = sum_j b_j p^j, for tools that want it
+     * (such as {@code PixelGrid.dispersion}). Badly conditioned for high degrees: prefer the
+     * scaled form for anything that is computed again.
+     *
+     * @return b_0 .. b_d in nm per pixel^j
+     */
+    public double[] powerCoefficients() {
+        int k = coefficients.length;
+        double[] b = new double[k];
+        // (p - c)^j / h^j expanded by the binomial theorem.
+        for (int j = 0; j < k; j++) {
+            double scale = coefficients[j] / Math.pow(halfRange, j);
+            double binomial = 1;
+            for (int m = 0; m <= j; m++) {
+                // term: C(j, m) p^m (-c)^(j - m)
+                b[m] += scale * binomial * Math.pow(-centre, j - m);
+                binomial = binomial * (j - m) / (m + 1);
+            }
+        }
+        return b;
+    }
+
+    /** @return the covariance of the scaled coefficients in nm^2, as reported (after {@link #covarianceScale()}), a copy */
+    public double[][] covariance() {
+        double[][] copy = new double[covariance.length][];
+        for (int i = 0; i < copy.length; i++) {
+            copy[i] = covariance[i].clone();
+        }
+        return copy;
+    }
+
+    /**
+     * @return the factor the weighted least-squares covariance was multiplied by: max(1, reduced
+     *         chi-square) for a weighted fit, the reduced chi-square for an unweighted one, 1 for
+     *         stored coefficients
+     */
+    public double covarianceScale() {
+        return covarianceScale;
+    }
+
+    /** @return the medium of the wavelengths */
+    public Medium medium() {
+        return medium;
+    }
+
+    /** @return the lowest pixel of the fitted (valid) range */
+    public double lowestPixel() {
+        return lowestPixel;
+    }
+
+    /** @return the highest pixel of the fitted (valid) range */
+    public double highestPixel() {
+        return highestPixel;
+    }
+
+    private double scaled(double p) {
+        return (p - centre) / halfRange;
+    }
+
+    /**
+     * @param pixel a pixel position (fractional; pixel i centred at i)
+     * @return the wavelength there in nm; NaN for NaN
+     */
+    public double wavelengthAt(double pixel) {
+        return PolynomialLeastSquares.evaluate(coefficients, scaled(pixel));
+    }
+
+    /**
+     * @param pixel a pixel position
+     * @return the standard uncertainty of {@link #wavelengthAt(double)} in nm, from the
+     *         coefficients' covariance; NaN for stored coefficients without covariance
+     */
+    public double wavelengthSigmaAt(double pixel) {
+        double x = scaled(pixel);
+        int k = coefficients.length;
+        double[] v = new double[k];
+        double power = 1;
+        for (int j = 0; j < k; j++) {
+            v[j] = power;
+            power *= x;
+        }
+        double sum = 0;
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j < k; j++) {
+                sum += v[i] * covariance[i][j] * v[j];
+            }
+        }
+        return Math.sqrt(Math.max(0, sum));
+    }
+
+    /**
+     * @param pixel a pixel position
+     * @return d lambda / d p in nm per pixel (negative when wavelength falls with pixel)
+     */
+    public double dispersionAt(double pixel) {
+        return PolynomialLeastSquares.derivative(coefficients, scaled(pixel)) / halfRange;
+    }
+
+    /**
+     * The pixel at which the solution reaches a wavelength, by Newton's method started from the
+     * linear term (to 1e-9 pixel).
+     *
+     * @param wavelengthNm a wavelength in nm in this solution's medium
+     * @return the pixel position
+     * @throws IllegalArgumentException when the wavelength is not finite, or Newton's method does
+     *         not converge (the polynomial does not reach it, or turns back, near the fitted range)
+     */
+    public double pixelAt(double wavelengthNm) {
+        if (!Double.isFinite(wavelengthNm)) {
+            throw new IllegalArgumentException("wavelength must be finite, got " + wavelengthNm + " nm");
+        }
+        double x = (wavelengthNm - coefficients[0]) / coefficients[1];
+        for (int iteration = 0; iteration < 100; iteration++) {
+            double f = PolynomialLeastSquares.evaluate(coefficients, x) - wavelengthNm;
+            double slope = PolynomialLeastSquares.derivative(coefficients, x);
+            double step = f / slope;
+            if (!Double.isFinite(step)) {
+                break;
+            }
+            x -= step;
+            if (Math.abs(step) * halfRange < 1e-9) {
+                return centre + x * halfRange;
+            }
+        }
+        throw new IllegalArgumentException("the dispersion solution does not reach " + wavelengthNm
+                + " nm: Newton's method found no pixel (solution fitted over pixels " + lowestPixel + " to "
+                + highestPixel + ", " + wavelengthAt(lowestPixel) + " to " + wavelengthAt(highestPixel) + " nm)");
+    }
+
+    /**
+     * @param pixels pixel positions
+     * @param out    receives their wavelengths in nm (may be {@code pixels} itself)
+     */
+    public void wavelengthsAt(double[] pixels, double[] out) {
+        if (out.length != pixels.length) {
+            throw new IllegalArgumentException("the output needs one value per pixel (" + pixels.length + "), got "
+                    + out.length);
+        }
+        for (int i = 0; i < pixels.length; i++) {
+            out[i] = wavelengthAt(pixels[i]);
+        }
+    }
+
+    /**
+     * @param pixels number of detector pixels, at least 1
+     * @return the wavelength in nm of each pixel centre 0 .. pixels - 1
+     */
+    public double[] pixelCentreWavelengths(int pixels) {
+        if (pixels < 1) {
+            throw new IllegalArgumentException("a detector needs at least one pixel, got " + pixels);
+        }
+        double[] out = new double[pixels];
+        for (int i = 0; i < pixels; i++) {
+            out[i] = wavelengthAt(i);
+        }
+        return out;
+    }
+
+    /**
+     * @param pixels number of detector pixels, at least 1
+     * @return the wavelengths in nm of the pixels + 1 edges at -1/2, 1/2, ..., pixels - 1/2
+     */
+    public double[] pixelEdgeWavelengths(int pixels) {
+        if (pixels < 1) {
+            throw new IllegalArgumentException("a detector needs at least one pixel, got " + pixels);
+        }
+        double[] out = new double[pixels + 1];
+        for (int i = 0; i <= pixels; i++) {
+            out[i] = wavelengthAt(i - 0.5);
+        }
+        return out;
+    }
+
+    /** @return the number of (pixel, wavelength) pairs fitted, rejected ones included */
+    public int size() {
+        return pixel.length;
+    }
+
+    /** @param i pair index @return the pair's pixel */
+    public double pixel(int i) {
+        return pixel[i];
+    }
+
+    /** @param i pair index @return the pair's reference wavelength in nm */
+    public double wavelength(int i) {
+        return wavelength[i];
+    }
+
+    /**
+     * @param i pair index
+     * @return the pair's standard uncertainty in nm used as its weight: the centroid's uncertainty
+     *         times the local dispersion, combined in quadrature with the line's own
+     */
+    public double sigmaNm(int i) {
+        return sigma[i];
+    }
+
+    /** @param i pair index @return reference minus fitted wavelength, nm */
+    public double residualNm(int i) {
+        return residual[i];
+    }
+
+    /** @param i pair index @return the residual in pixels (nm residual over the local dispersion) */
+    public double residualPixels(int i) {
+        return residual[i] / Math.abs(dispersionAt(pixel[i]));
+    }
+
+    /** @param i pair index @return whether clipping left the pair out of the final fit */
+    public boolean isRejected(int i) {
+        return rejected[i];
+    }
+
+    /** @return how many pairs the final fit used */
+    public int usedCount() {
+        int n = 0;
+        for (boolean r : rejected) {
+            if (!r) {
+                n++;
+            }
+        }
+        return n;
+    }
+
+    /** @return how many pairs clipping rejected */
+    public int rejectedCount() {
+        return pixel.length - usedCount();
+    }
+
+    /** @return root mean square of the used pairs' residuals in nm (unweighted); NaN without pairs */
+    public double rmsNm() {
+        double sum = 0;
+        int n = 0;
+        for (int i = 0; i < pixel.length; i++) {
+            if (!rejected[i]) {
+                sum += residual[i] * residual[i];
+                n++;
+            }
+        }
+        return n == 0 ? Double.NaN : Math.sqrt(sum / n);
+    }
+
+    /** @return root mean square of the used pairs' residuals in pixels; NaN without pairs */
+    public double rmsPixels() {
+        double sum = 0;
+        int n = 0;
+        for (int i = 0; i < pixel.length; i++) {
+            if (!rejected[i]) {
+                double r = residualPixels(i);
+                sum += r * r;
+                n++;
+            }
+        }
+        return n == 0 ? Double.NaN : Math.sqrt(sum / n);
+    }
+
+    /** @return the weighted sum of squared residuals of the used pairs; NaN without pairs */
+    public double chiSquare() {
+        return chiSquare;
+    }
+
+    /** @return used pairs minus coefficients */
+    public int degreesOfFreedom() {
+        return degreesOfFreedom;
+    }
+
+    /** @return chi-square per degree of freedom; NaN without pairs */
+    public double reducedChiSquare() {
+        return degreesOfFreedom > 0 ? chiSquare / degreesOfFreedom : Double.NaN;
+    }
+
+    /**
+     * @param degree a polynomial degree
+     * @return the corrected Akaike information criterion of that degree on the final pairs, when
+     *         the degree was chosen automatically and this degree was tried; NaN otherwise
+     */
+    public double aicc(int degree) {
+        return degree >= 0 && degree < criterion.length ? criterion[degree] : Double.NaN;
+    }
+}

@@ -1,0 +1,177 @@
+package org.ritzwerk.engine.calibrate;
+
+import org.apache.commons.math3.exception.MathIllegalStateException;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
+import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunction;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.ArrayRealVector;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.RealVector;
+import org.apache.commons.math3.linear.SingularMatrixException;
+import org.apache.commons.math3.special.Erf;
+import org.apache.commons.math3.util.Pair;
+
+/**
+ * One weighted least-squares fit of K pixel-integrated Gaussians of common width on a local
+ * straight-line baseline (package-private helper of {@link PeakFinder}):
+ * <pre>
+ *   m(i) = b0 + b1 (i - mid) / half
+ *        + sum_k A_k [Phi((i + 1/2 - c_k) / s) - Phi((i - 1/2 - c_k) / s)]
+ * </pre>
+ * where Phi is the standard normal distribution function, so A_k is the flux (counts summed over
+ * all pixels), c_k the centre in pixels and s the Gaussian's standard deviation in pixels before
+ * integration over the pixel [i - 1/2, i + 1/2). The Jacobian is analytic. Minimised with the
+ * Levenberg-Marquardt method of Commons Math 3.6.1 (Mor&eacute;'s MINPACK form: J. J. Mor&eacute;,
+ * "The Levenberg-Marquardt algorithm: implementation and theory", Lecture Notes in Mathematics
+ * 630, 105-116 (1978)) on residuals divided by the pixel standard deviations, so the returned
+ * covariance (J^T J)^-1 is that of the weighted problem, unscaled.
+ *
+ * <p>Parameter vector: {@code [b0, b1, s, A_1, c_1, ..., A_K, c_K]}.
+ */
+final class GaussianBlendFit {
+
+    static final int B0 = 0;
+    static final int B1 = 1;
+    static final int WIDTH = 2;
+    static final int FIRST = 3;
+
+    private static final double SQRT2 = Math.sqrt(2);
+    private static final double INV_SQRT_2PI = 1 / Math.sqrt(2 * Math.PI);
+    private static final double MIN_WIDTH = 0.15;
+
+    /** A converged fit. */
+    record Result(double[] parameters, double[][] covariance, double chiSquare, int points) {
+    }
+
+    private GaussianBlendFit() {
+    }
+
+    /**
+     * @param x      pixel indices fitted (saturated pixels already left out)
+     * @param y      counts minus the estimated baseline at those pixels
+     * @param sigma  standard deviations of y, positive
+     * @param start  starting parameters, see the class comment
+     * @param mid    the baseline's reference pixel
+     * @param half   the baseline's scale in pixels, positive
+     * @param lo     lowest centre allowed (pixels)
+     * @param hi     highest centre allowed (pixels)
+     * @param maxWidth largest s allowed (pixels)
+     * @return the fit, or null when it did not converge or its covariance is singular
+     */
+    static Result fit(double[] x, double[] y, double[] sigma, double[] start, double mid, double half, double lo,
+            double hi, double maxWidth) {
+        int n = x.length;
+        int p = start.length;
+        double[] target = new double[n];
+        for (int i = 0; i < n; i++) {
+            target[i] = y[i] / sigma[i];
+        }
+        MultivariateJacobianFunction model = point -> {
+            double[] q = point.toArray();
+            double[] value = new double[n];
+            double[][] jacobian = new double[n][p];
+            evaluate(q, x, mid, half, value, jacobian);
+            for (int i = 0; i < n; i++) {
+                double w = 1 / sigma[i];
+                value[i] *= w;
+                for (int j = 0; j < p; j++) {
+                    jacobian[i][j] *= w;
+                }
+            }
+            return new Pair<RealVector, RealMatrix>(new ArrayRealVector(value, false),
+                    new Array2DRowRealMatrix(jacobian, false));
+        };
+        LeastSquaresProblem problem = new LeastSquaresBuilder()
+                .start(start)
+                .target(target)
+                .model(model)
+                .parameterValidator(point -> {
+                    // Keep the width positive and the centres near their window, so that a
+                    // wandering step cannot leave the data; a fit pinned there is refused later.
+                    point.setEntry(WIDTH, Math.min(maxWidth, Math.max(MIN_WIDTH, point.getEntry(WIDTH))));
+                    for (int j = FIRST + 1; j < p; j += 2) {
+                        point.setEntry(j, Math.min(hi + 1, Math.max(lo - 1, point.getEntry(j))));
+                    }
+                    return point;
+                })
+                .maxEvaluations(2000)
+                .maxIterations(500)
+                .lazyEvaluation(false)
+                .build();
+        LevenbergMarquardtOptimizer optimizer = new LevenbergMarquardtOptimizer()
+                .withCostRelativeTolerance(1e-12)
+                .withParameterRelativeTolerance(1e-12)
+                .withOrthoTolerance(1e-12);
+        try {
+            LeastSquaresOptimizer.Optimum optimum = optimizer.optimize(problem);
+            double[] q = optimum.getPoint().toArray();
+            double[][] covariance = optimum.getCovariances(1e-14).getData();
+            double chiSquare = optimum.getResiduals().dotProduct(optimum.getResiduals());
+            return new Result(q, covariance, chiSquare, n);
+        } catch (MathIllegalStateException | SingularMatrixException e) {
+            return null;
+        }
+    }
+
+    /**
+     * The model and its Jacobian (unweighted).
+     *
+     * @param q        parameters
+     * @param x        pixels
+     * @param mid      baseline reference pixel
+     * @param half     baseline scale
+     * @param value    receives m(x_i)
+     * @param jacobian receives dm/dq, or null
+     */
+    static void evaluate(double[] q, double[] x, double mid, double half, double[] value, double[][] jacobian) {
+        int p = q.length;
+        double s = q[WIDTH];
+        for (int i = 0; i < x.length; i++) {
+            double t = (x[i] - mid) / half;
+            double m = q[B0] + q[B1] * t;
+            double dWidth = 0;
+            for (int j = FIRST; j < p; j += 2) {
+                double flux = q[j];
+                double centre = q[j + 1];
+                double uPlus = (x[i] + 0.5 - centre) / s;
+                double uMinus = (x[i] - 0.5 - centre) / s;
+                // Phi(b) - Phi(a) = (erf(b / sqrt 2) - erf(a / sqrt 2)) / 2; Commons Math's two-argument
+                // erf switches to erfc in the tails, where the plain difference would cancel.
+                double share = 0.5 * Erf.erf(uMinus / SQRT2, uPlus / SQRT2);
+                m += flux * share;
+                if (jacobian != null) {
+                    double phiPlus = INV_SQRT_2PI * Math.exp(-0.5 * uPlus * uPlus);
+                    double phiMinus = INV_SQRT_2PI * Math.exp(-0.5 * uMinus * uMinus);
+                    jacobian[i][j] = share;
+                    jacobian[i][j + 1] = flux / s * (phiMinus - phiPlus);
+                    dWidth += flux / s * (uMinus * phiMinus - uPlus * phiPlus);
+                }
+            }
+            value[i] = m;
+            if (jacobian != null) {
+                jacobian[i][B0] = 1;
+                jacobian[i][B1] = t;
+                jacobian[i][WIDTH] = dWidth;
+            }
+        }
+    }
+
+    /**
+     * @param q parameters
+     * @param x pixel
+     * @return the lines' part of the model at x (no baseline)
+     */
+    static double linesAt(double[] q, double x) {
+        double s = q[WIDTH];
+        double sum = 0;
+        for (int j = FIRST; j < q.length; j += 2) {
+            double uPlus = (x + 0.5 - q[j + 1]) / s;
+            double uMinus = (x - 0.5 - q[j + 1]) / s;
+            sum += q[j] * 0.5 * Erf.erf(uMinus / SQRT2, uPlus / SQRT2);
+        }
+        return sum;
+    }
+}

@@ -1,0 +1,762 @@
+package org.ritzwerk.engine.calibrate;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+
+/**
+ * Finds emission peaks in counts per pixel and measures their centroids with uncertainties.
+ *
+ * <p><b>Pixel coordinates.</b> Pixel i (0-based) covers [i - 1/2, i + 1/2) and has its centre
+ * at i.
+ *
+ * <p><b>Steps.</b>
+ * <ol>
+ * <li>Noise: sigma = 1.4826 MAD / sqrt 2 of the first differences, for the first pass.</li>
+ * <li>Baseline: an iteratively 3-sigma-clipped running median over {@link #withBaselineWindow
+ * baselineWindow} pixels, interpolated between nodes; then the local background noise
+ * sigma_bg(i), 1.4826 times the running median of |counts - baseline| over the pixels the
+ * clipping kept, in windows of 4 baseline windows or an eighth of the spectrum, whichever is
+ * wider (common practice; see {@link Peaks#noise()}).</li>
+ * <li>Candidates: local maxima of the baseline-subtracted counts smoothed by a Gaussian of
+ * {@link #withSmoothing smoothing} pixels (standard deviation), at least half the threshold
+ * (threshold times sigma_bg) high. Of two neighbouring maxima, the lower is merged into the higher
+ * unless the dip between them is at least 2 local standard deviations deep.</li>
+ * <li>Fit: around each candidate a window of +-{@link #withFitHalfWidth fitHalfWidth} times a
+ * first FWHM estimate (at least 3 pixels); candidates whose windows overlap are fitted together
+ * (at most {@link #withMaxBlend maxBlend} per fit; a longer chain is split at its widest gap) as
+ * a sum of pixel-integrated Gaussians of one common width on a local straight line, by
+ * Levenberg-Marquardt (see {@code GaussianBlendFit}). The common width assumes the instrument
+ * profile varies little over a blend (common practice). Lines closer than about 1.3 FWHM show no
+ * dip and are fitted as one (wider) line; the fit's chi-square then usually flags it
+ * {@link PeakFlag#POOR_FIT}.</li>
+ * <li>Accept: a component is kept when its height (the counts it puts in a pixel centred on it)
+ * is at least threshold times sigma_bg, its flux at least threshold times the flux's own
+ * standard uncertainty (which keeps one-pixel noise spikes out), its centre inside its window
+ * and its width between 0.15 pixel and half the window; otherwise the weakest offending
+ * component is dropped and the rest refitted.
+ * Candidates whose fit fails outright are reported in {@link Peaks#unfitted()}.</li>
+ * </ol>
+ *
+ * <p><b>Uncertainties.</b> With per-pixel standard uncertainties ({@link #find(double[],
+ * double[])}) the fit is weighted by them and the centroid's standard uncertainty is the square
+ * root of the diagonal of (J^T W J)^-1, not rescaled: the caller's uncertainties are trusted.
+ * Without them ({@link #find(double[])}), each pixel is given the Poisson-like variance
+ * sigma_bg(i)^2 + max(line counts, 0): the local background noise (measured) plus the line's own
+ * counts as if counted in detected photo-electrons (gain 1). The fit is made once with the
+ * observed counts in that variance and once more with the fitted model's. Since the gain need
+ * not be 1 and the background noise is an estimate, the covariance is then multiplied by the
+ * spectrum's pooled reduced chi-square F: the median over all fits of chi^2 / (n - p), divided by
+ * the median of a chi-square variable over its degrees of freedom, (1 - 2/(9 nu))^3 (Wilson and
+ * Hilferty, PNAS 17, 684 (1931)), so that F is 1 when the variances are right. One pooled F has
+ * hundreds of degrees of freedom; each fit's own chi^2 / (n - p), with a dozen, would scatter the
+ * uncertainties by some 20 % and understate them on average (Student's t). With fewer than 5
+ * fits each is scaled by its own reduced chi-square instead. {@link Peaks#noiseScale()} reports F.
+ *
+ * <p><b>Poor fits.</b> In both modes, a fit whose chi-square (over F) exceeds the 99th percentile
+ * of the chi-square distribution (Wilson-Hilferty approximation) has its peaks' covariance
+ * scaled by its own reduced chi-square instead, and its peaks flagged {@link PeakFlag#POOR_FIT}:
+ * the scatter shows the model does not describe them (an unresolved blend, most often).
+ *
+ * <p><b>Saturation.</b> Pixels at or above {@link #withSaturationLevel the saturation level} are
+ * left out of the baseline, the noise estimate and the fits; peaks within one FWHM of one are
+ * flagged {@link PeakFlag#SATURATED}.
+ *
+ * <p>Immutable and thread-safe; configure with the {@code withX} methods, each returning a copy.
+ */
+public final class PeakFinder {
+
+    /** Default signal-to-noise threshold on the fitted height. */
+    public static final double DEFAULT_THRESHOLD = 5;
+    /** Default baseline window in pixels. */
+    public static final int DEFAULT_BASELINE_WINDOW = 101;
+    /** Default standard deviation of the smoothing Gaussian for the candidate search, in pixels. */
+    public static final double DEFAULT_SMOOTHING = 0.5;
+    /** Default half-width of a fit window in first-estimate FWHMs. */
+    public static final double DEFAULT_FIT_HALF_WIDTH = 2.5;
+    /** Default largest number of peaks fitted together. */
+    public static final int DEFAULT_MAX_BLEND = 8;
+    /** Fewest pixels a spectrum must have. */
+    public static final int MIN_PIXELS = 8;
+
+    private static final double PROMINENCE = 2;
+    private static final double FWHM_PER_SIGMA = 2 * Math.sqrt(2 * Math.log(2));
+    private static final double SQRT_2PI = Math.sqrt(2 * Math.PI);
+    private static final double MIN_WIDTH = 0.15;
+    private static final double MAX_FWHM_ESTIMATE = 50;
+
+    private final double threshold;
+    private final int baselineWindow;
+    private final double smoothing;
+    private final double fitHalfWidth;
+    private final int maxBlend;
+    private final double saturationLevel;
+    private final boolean negativeAllowed;
+
+    private PeakFinder(double threshold, int baselineWindow, double smoothing, double fitHalfWidth, int maxBlend,
+            double saturationLevel, boolean negativeAllowed) {
+        this.threshold = threshold;
+        this.baselineWindow = baselineWindow;
+        this.smoothing = smoothing;
+        this.fitHalfWidth = fitHalfWidth;
+        this.maxBlend = maxBlend;
+        this.saturationLevel = saturationLevel;
+        this.negativeAllowed = negativeAllowed;
+    }
+
+    /**
+     * @return a finder with threshold 5, baseline window 101 pixels, smoothing 0.5 pixel, fit
+     *         half-width 2.5 FWHM, at most 8 peaks per blend, no saturation level, negative counts
+     *         refused
+     */
+    public static PeakFinder defaults() {
+        return new PeakFinder(DEFAULT_THRESHOLD, DEFAULT_BASELINE_WINDOW, DEFAULT_SMOOTHING, DEFAULT_FIT_HALF_WIDTH,
+                DEFAULT_MAX_BLEND, Double.POSITIVE_INFINITY, false);
+    }
+
+    /**
+     * @param snr smallest fitted height accepted, in units of the background noise; finite, &gt; 0
+     * @return a copy with that threshold
+     */
+    public PeakFinder withThreshold(double snr) {
+        if (!(snr > 0) || Double.isInfinite(snr)) {
+            throw new IllegalArgumentException("threshold must be a finite signal-to-noise ratio > 0, got " + snr);
+        }
+        return new PeakFinder(snr, baselineWindow, smoothing, fitHalfWidth, maxBlend, saturationLevel, negativeAllowed);
+    }
+
+    /**
+     * @param pixels width of the running-median window in pixels, at least 5; several times the
+     *               widest line (or blend) so lines never fill a window
+     * @return a copy with that window
+     */
+    public PeakFinder withBaselineWindow(int pixels) {
+        if (pixels < 5) {
+            throw new IllegalArgumentException("baseline window must be at least 5 pixels, got " + pixels);
+        }
+        return new PeakFinder(threshold, pixels, smoothing, fitHalfWidth, maxBlend, saturationLevel, negativeAllowed);
+    }
+
+    /**
+     * @param sigmaPixels standard deviation in pixels of the Gaussian that smooths the data for
+     *                    the candidate search only (fits use the raw counts); 0 for none, at most 10
+     * @return a copy with that smoothing
+     */
+    public PeakFinder withSmoothing(double sigmaPixels) {
+        if (!(sigmaPixels >= 0 && sigmaPixels <= 10)) {
+            throw new IllegalArgumentException("smoothing must be 0 to 10 pixels, got " + sigmaPixels);
+        }
+        return new PeakFinder(threshold, baselineWindow, sigmaPixels, fitHalfWidth, maxBlend, saturationLevel,
+                negativeAllowed);
+    }
+
+    /**
+     * @param fwhms half-width of a fit window in first-estimate FWHMs, 1 to 10
+     * @return a copy with that window
+     */
+    public PeakFinder withFitHalfWidth(double fwhms) {
+        if (!(fwhms >= 1 && fwhms <= 10)) {
+            throw new IllegalArgumentException("fit half-width must be 1 to 10 FWHM, got " + fwhms);
+        }
+        return new PeakFinder(threshold, baselineWindow, smoothing, fwhms, maxBlend, saturationLevel, negativeAllowed);
+    }
+
+    /**
+     * @param peaks largest number of peaks fitted together, 1 to 20
+     * @return a copy with that limit
+     */
+    public PeakFinder withMaxBlend(int peaks) {
+        if (peaks < 1 || peaks > 20) {
+            throw new IllegalArgumentException("max blend must be 1 to 20 peaks, got " + peaks);
+        }
+        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, peaks, saturationLevel,
+                negativeAllowed);
+    }
+
+    /**
+     * @param counts the detector's saturation level in counts (pixels at or above it are
+     *               saturated); finite, or positive infinity for none
+     * @return a copy with that level
+     */
+    public PeakFinder withSaturationLevel(double counts) {
+        if (Double.isNaN(counts) || counts == Double.NEGATIVE_INFINITY) {
+            throw new IllegalArgumentException("saturation level must be a number of counts or +infinity, got "
+                    + counts);
+        }
+        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, counts, negativeAllowed);
+    }
+
+    /**
+     * @param allowed whether negative counts are accepted (bias-subtracted data); by default they
+     *                are refused as a sign of a wrong input
+     * @return a copy with that policy
+     */
+    public PeakFinder withNegativeCountsAllowed(boolean allowed) {
+        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, saturationLevel, allowed);
+    }
+
+    /**
+     * Finds peaks with modelled pixel variances (see the class comment).
+     *
+     * @param counts counts per pixel, finite (and not negative unless allowed), at least
+     *               {@value #MIN_PIXELS} pixels, not all equal
+     * @return the peaks, sorted by centroid
+     * @throws IllegalArgumentException for an empty, short or constant spectrum, naming the first
+     *         NaN, infinite or negative pixel, or when every pixel is saturated
+     */
+    public Peaks find(double[] counts) {
+        return find(counts, null);
+    }
+
+    /**
+     * Finds peaks with the caller's per-pixel standard uncertainties.
+     *
+     * @param counts counts per pixel, as for {@link #find(double[])}
+     * @param sigma  standard uncertainty of each pixel in counts, finite and positive; or null to
+     *               model them
+     * @return the peaks, sorted by centroid
+     * @throws IllegalArgumentException as for {@link #find(double[])}, for an uncertainty array of
+     *         another length, or naming the first pixel whose uncertainty is not finite and positive
+     */
+    public Peaks find(double[] counts, double[] sigma) {
+        int n = counts.length;
+        check(counts, sigma);
+        boolean[] saturated = new boolean[n];
+        int saturatedCount = 0;
+        for (int i = 0; i < n; i++) {
+            if (counts[i] >= saturationLevel) {
+                saturated[i] = true;
+                saturatedCount++;
+            }
+        }
+        if (saturatedCount == n) {
+            throw new IllegalArgumentException("all " + n + " pixels are saturated (at or above " + saturationLevel
+                    + " counts)");
+        }
+        double firstNoise = Baseline.noise(counts, saturated);
+        double largest = 0;
+        for (double c : counts) {
+            largest = Math.max(largest, Math.abs(c));
+        }
+        // A noiseless spectrum has no noise to measure: a floor far below any count keeps the
+        // variances positive, and every local maximum then counts.
+        double floor = 1e-12 * largest;
+        firstNoise = Math.max(firstNoise, floor);
+        int window = Math.min(baselineWindow, n);
+        Baseline.Estimate estimate = Baseline.estimate(counts, saturated, window, firstNoise);
+        double[] baseline = estimate.baseline();
+        // A median of |deviations| over a baseline window (~100 pixels) scatters by some 12 %;
+        // the noise changes more slowly than the baseline, so it is taken over wider windows.
+        int noiseWindow = Math.min(n, Math.max(4 * window, n / 8));
+        double[] noise = Baseline.localNoise(counts, estimate, noiseWindow, firstNoise);
+        double[] line = new double[n];
+        for (int i = 0; i < n; i++) {
+            noise[i] = Math.max(noise[i], floor);
+            line[i] = counts[i] - baseline[i];
+        }
+        double[] smooth = smooth(line, smoothing);
+        int[] candidates = candidates(line, smooth, saturated, sigma, noise);
+        return fitAll(counts, sigma, saturated, noise, baseline, line, candidates);
+    }
+
+    private void check(double[] counts, double[] sigma) {
+        int n = counts.length;
+        if (n == 0) {
+            throw new IllegalArgumentException("the spectrum is empty");
+        }
+        if (n < MIN_PIXELS) {
+            throw new IllegalArgumentException("a spectrum needs at least " + MIN_PIXELS + " pixels, got " + n);
+        }
+        for (int i = 0; i < n; i++) {
+            double c = counts[i];
+            if (!Double.isFinite(c)) {
+                throw new IllegalArgumentException("pixel " + i + ": counts must be finite, got " + c);
+            }
+            if (c < 0 && !negativeAllowed) {
+                throw new IllegalArgumentException("pixel " + i + ": counts must not be negative, got " + c
+                        + " (allow them with withNegativeCountsAllowed(true) for bias-subtracted data)");
+            }
+        }
+        boolean constant = true;
+        for (int i = 1; i < n && constant; i++) {
+            constant = counts[i] == counts[0];
+        }
+        if (constant) {
+            throw new IllegalArgumentException("the spectrum is constant (all " + n + " pixels are " + counts[0]
+                    + " counts): it has no peaks and no noise to measure");
+        }
+        if (sigma != null) {
+            if (sigma.length != n) {
+                throw new IllegalArgumentException("the uncertainties need one value per pixel (" + n + "), got "
+                        + sigma.length);
+            }
+            for (int i = 0; i < n; i++) {
+                if (!(sigma[i] > 0) || Double.isInfinite(sigma[i])) {
+                    throw new IllegalArgumentException("pixel " + i + ": uncertainty must be finite and positive, got "
+                            + sigma[i]);
+                }
+            }
+        }
+    }
+
+    /** Gaussian smoothing with the kernel renormalised at the ends. */
+    private static double[] smooth(double[] y, double sigma) {
+        int n = y.length;
+        if (sigma == 0) {
+            return y.clone();
+        }
+        int h = (int) Math.ceil(3 * sigma);
+        double[] kernel = new double[2 * h + 1];
+        for (int k = -h; k <= h; k++) {
+            kernel[k + h] = Math.exp(-0.5 * k * k / (sigma * sigma));
+        }
+        double[] out = new double[n];
+        for (int i = 0; i < n; i++) {
+            double sum = 0;
+            double weight = 0;
+            for (int k = Math.max(-h, -i); k <= Math.min(h, n - 1 - i); k++) {
+                sum += kernel[k + h] * y[i + k];
+                weight += kernel[k + h];
+            }
+            out[i] = sum / weight;
+        }
+        return out;
+    }
+
+    private static double localSigma(double[] sigma, double[] noise, double lineCounts, int i) {
+        return sigma != null ? sigma[i] : Math.sqrt(noise[i] * noise[i] + Math.max(0, lineCounts));
+    }
+
+    private int[] candidates(double[] line, double[] smooth, boolean[] saturated, double[] sigma, double[] noise) {
+        int n = line.length;
+        List<Integer> found = new ArrayList<>();
+        for (int i = 1; i + 1 < n; i++) {
+            if (smooth[i] > smooth[i - 1] && smooth[i] >= smooth[i + 1] && smooth[i] >= 0.5 * threshold * noise[i]) {
+                found.add(i);
+            }
+        }
+        // Merge maxima that are not separated by a real dip (noise on one line's top or wings).
+        boolean merged = true;
+        while (merged && found.size() > 1) {
+            merged = false;
+            for (int k = 0; k + 1 < found.size(); k++) {
+                int a = found.get(k);
+                int b = found.get(k + 1);
+                double dip = Double.POSITIVE_INFINITY;
+                for (int i = a; i <= b; i++) {
+                    dip = Math.min(dip, smooth[i]);
+                }
+                boolean aLower = smooth[a] < smooth[b];
+                int lower = aLower ? a : b;
+                boolean flat = saturated[a] && saturated[b];
+                if (flat || smooth[lower] - dip < PROMINENCE * localSigma(sigma, noise, smooth[lower], lower)) {
+                    found.remove(aLower ? k : k + 1);
+                    merged = true;
+                    break;
+                }
+            }
+        }
+        int[] out = new int[found.size()];
+        for (int k = 0; k < out.length; k++) {
+            out[k] = found.get(k);
+        }
+        return out;
+    }
+
+    /** A first FWHM from the half-height crossings of the baseline-subtracted counts. */
+    private static double fwhmEstimate(double[] line, int c, int left, int right) {
+        int n = line.length;
+        double top = line[c];
+        if (c > 0) {
+            top = Math.max(top, line[c - 1]);
+        }
+        if (c + 1 < n) {
+            top = Math.max(top, line[c + 1]);
+        }
+        double half = top / 2;
+        double lo = c;
+        int i = c;
+        while (i > left && line[i] > half) {
+            i--;
+        }
+        if (line[i] <= half && i < c) {
+            lo = i + (half - line[i]) / (line[i + 1] - line[i]);
+        } else {
+            lo = i;
+        }
+        int j = c;
+        while (j < right && line[j] > half) {
+            j++;
+        }
+        double hi;
+        if (line[j] <= half && j > c) {
+            hi = j - (half - line[j]) / (line[j - 1] - line[j]);
+        } else {
+            hi = j;
+        }
+        return Math.max(1, Math.min(MAX_FWHM_ESTIMATE, hi - lo));
+    }
+
+    private Peaks fitAll(double[] counts, double[] sigma, boolean[] saturated, double[] noise, double[] baseline,
+            double[] line, int[] candidates) {
+        int n = counts.length;
+        int m = candidates.length;
+        double[] fwhm = new double[m];
+        double[] start = new double[m];
+        int[] halfWindow = new int[m];
+        for (int k = 0; k < m; k++) {
+            int c = candidates[k];
+            int left = k > 0 ? (candidates[k - 1] + c) / 2 : Math.max(0, c - (int) MAX_FWHM_ESTIMATE);
+            int right = k + 1 < m ? (candidates[k + 1] + c) / 2 : Math.min(n - 1, c + (int) MAX_FWHM_ESTIMATE);
+            fwhm[k] = fwhmEstimate(line, c, left, right);
+            start[k] = startCentre(line, saturated, c);
+            halfWindow[k] = Math.max(3, (int) Math.ceil(fitHalfWidth * fwhm[k]));
+        }
+        Collector out = new Collector(m);
+        int k = 0;
+        while (k < m) {
+            int end = k + 1;
+            while (end < m && candidates[end] - halfWindow[end] <= candidates[end - 1] + halfWindow[end - 1]) {
+                end++;
+            }
+            fitChain(k, end, counts, sigma, saturated, noise, line, candidates, start, fwhm, halfWindow, out);
+            k = end;
+        }
+        return out.build(n, noise, baseline, sigma != null);
+    }
+
+    /** Splits a chain of overlapping candidates [from, to) into blends of at most maxBlend. */
+    private void fitChain(int from, int to, double[] counts, double[] sigma, boolean[] saturated, double[] noise,
+            double[] line, int[] candidates, double[] start, double[] fwhm, int[] halfWindow, Collector out) {
+        if (to - from > maxBlend) {
+            int cut = from + 1;
+            int widest = -1;
+            for (int k = from + 1; k < to; k++) {
+                int gap = candidates[k] - candidates[k - 1];
+                if (gap > widest) {
+                    widest = gap;
+                    cut = k;
+                }
+            }
+            fitChain(from, cut, counts, sigma, saturated, noise, line, candidates, start, fwhm, halfWindow, out);
+            fitChain(cut, to, counts, sigma, saturated, noise, line, candidates, start, fwhm, halfWindow, out);
+            return;
+        }
+        List<Integer> members = new ArrayList<>();
+        for (int k = from; k < to; k++) {
+            members.add(k);
+        }
+        fitBlend(members, counts, sigma, saturated, noise, line, candidates, start, fwhm, halfWindow, out);
+    }
+
+    private static double startCentre(double[] line, boolean[] saturated, int c) {
+        int n = line.length;
+        if (saturated[c]) {
+            int a = c;
+            int b = c;
+            while (a > 0 && saturated[a - 1]) {
+                a--;
+            }
+            while (b + 1 < n && saturated[b + 1]) {
+                b++;
+            }
+            return 0.5 * (a + b);
+        }
+        if (c == 0 || c == n - 1) {
+            return c;
+        }
+        double l = line[c - 1];
+        double mid = line[c];
+        double r = line[c + 1];
+        double curvature = l - 2 * mid + r;
+        if (curvature >= 0) {
+            return c;
+        }
+        double shift = 0.5 * (l - r) / curvature;
+        return c + Math.max(-0.5, Math.min(0.5, shift));
+    }
+
+    private void fitBlend(List<Integer> members, double[] counts, double[] sigma, boolean[] saturated, double[] noise,
+            double[] line, int[] candidates, double[] start, double[] fwhm, int[] halfWindow, Collector out) {
+        int n = counts.length;
+        while (!members.isEmpty()) {
+            int first = members.get(0);
+            int last = members.get(members.size() - 1);
+            int lo = Math.max(0, candidates[first] - halfWindow[first]);
+            int hi = Math.min(n - 1, candidates[last] + halfWindow[last]);
+            int kCount = members.size();
+            int p = GaussianBlendFit.FIRST + 2 * kCount;
+            int used = 0;
+            for (int i = lo; i <= hi; i++) {
+                if (!saturated[i]) {
+                    used++;
+                }
+            }
+            if (used < p + 2) {
+                if (kCount == 1) {
+                    out.unfitted(candidates[first]);
+                    return;
+                }
+                int weak = weakest(members, line, candidates);
+                out.unfitted(candidates[weak]);
+                members.remove(Integer.valueOf(weak));
+                continue;
+            }
+            double[] x = new double[used];
+            double[] y = new double[used];
+            double[] s = new double[used];
+            int u = 0;
+            for (int i = lo; i <= hi; i++) {
+                if (!saturated[i]) {
+                    x[u] = i;
+                    y[u] = line[i];
+                    s[u] = localSigma(sigma, noise, line[i], i);
+                    u++;
+                }
+            }
+            double[] q0 = new double[p];
+            double width = 0;
+            for (int k : members) {
+                width += fwhm[k];
+            }
+            width = width / kCount / FWHM_PER_SIGMA;
+            q0[GaussianBlendFit.WIDTH] = Math.max(0.5, width);
+            for (int j = 0; j < kCount; j++) {
+                int k = members.get(j);
+                double height = Math.max(line[candidates[k]], noise[candidates[k]]);
+                q0[GaussianBlendFit.FIRST + 2 * j] = height * q0[GaussianBlendFit.WIDTH] * SQRT_2PI;
+                q0[GaussianBlendFit.FIRST + 2 * j + 1] = start[k];
+            }
+            double mid = 0.5 * (lo + hi);
+            double half = Math.max(1, 0.5 * (hi - lo));
+            double maxWidth = Math.max(1, 0.5 * (hi - lo));
+            GaussianBlendFit.Result fit = GaussianBlendFit.fit(x, y, s, q0, mid, half, lo, hi, maxWidth);
+            if (fit != null && sigma == null) {
+                // Second pass: the line's Poisson variance from the fitted model, not the noisy data.
+                for (int i = 0; i < used; i++) {
+                    int pixel = (int) x[i];
+                    s[i] = Math.sqrt(noise[pixel] * noise[pixel]
+                            + Math.max(0, GaussianBlendFit.linesAt(fit.parameters(), x[i])));
+                }
+                GaussianBlendFit.Result again = GaussianBlendFit.fit(x, y, s, fit.parameters(), mid, half, lo, hi,
+                        maxWidth);
+                fit = again;
+            }
+            if (fit == null) {
+                if (kCount == 1) {
+                    out.unfitted(candidates[first]);
+                    return;
+                }
+                int weak = weakest(members, line, candidates);
+                out.unfitted(candidates[weak]);
+                members.remove(Integer.valueOf(weak));
+                continue;
+            }
+            double[] q = fit.parameters();
+            double s0 = q[GaussianBlendFit.WIDTH];
+            boolean widthOk = s0 > MIN_WIDTH * 1.0001 && s0 < maxWidth * 0.9999;
+            // The weakest offending component goes first; a bad width condemns the weakest of all.
+            int drop = -1;
+            boolean failure = false;
+            double dropFlux = Double.POSITIVE_INFINITY;
+            for (int j = 0; j < kCount; j++) {
+                double flux = q[GaussianBlendFit.FIRST + 2 * j];
+                double centre = q[GaussianBlendFit.FIRST + 2 * j + 1];
+                double height = topPixel(flux, s0);
+                boolean inside = centre >= lo - 0.5 && centre <= hi + 0.5;
+                boolean ok = widthOk && flux > 0 && inside;
+                double fluxSigma = Math.sqrt(fit.covariance()[GaussianBlendFit.FIRST + 2 * j][GaussianBlendFit.FIRST + 2 * j]);
+                boolean strong = inside && height >= threshold * noise[nearest(centre, n)]
+                        && flux >= threshold * fluxSigma;
+                if ((!ok || !strong) && flux < dropFlux) {
+                    dropFlux = flux;
+                    drop = j;
+                    failure = !ok;
+                }
+            }
+            if (drop < 0) {
+                int dof = fit.points() - p;
+                int group = out.newFit(fit.chiSquare(), dof);
+                for (int j = 0; j < kCount; j++) {
+                    int a = GaussianBlendFit.FIRST + 2 * j;
+                    double flux = q[a];
+                    double centre = q[a + 1];
+                    double fw = FWHM_PER_SIGMA * s0;
+                    double height = topPixel(flux, s0);
+                    int flags = 0;
+                    if (kCount > 1) {
+                        flags |= PeakFlag.BLENDED.bit();
+                    }
+                    int k = members.get(j);
+                    if (candidates[k] - halfWindow[k] < 0 || candidates[k] + halfWindow[k] > n - 1) {
+                        flags |= PeakFlag.EDGE.bit();
+                    }
+                    int from = Math.max(0, (int) Math.floor(centre - fw));
+                    int to = Math.min(n - 1, (int) Math.ceil(centre + fw));
+                    for (int i = from; i <= to; i++) {
+                        if (saturated[i]) {
+                            flags |= PeakFlag.SATURATED.bit();
+                            break;
+                        }
+                    }
+                    out.add(group, centre, fit.covariance()[a + 1][a + 1], flux, fit.covariance()[a][a], height, fw,
+                            height / noise[nearest(centre, n)], flags);
+                }
+                return;
+            }
+            // A failed width condemns the blend's weakest member; it is refitted without it.
+            if (failure) {
+                out.unfitted(candidates[members.get(drop)]);
+            }
+            members.remove(drop);
+        }
+    }
+
+    /**
+     * The counts a line puts into a pixel centred on it: flux (Phi(1/(2s)) - Phi(-1/(2s))). Unlike
+     * the continuous profile's top, flux / (s sqrt(2 pi)), this cannot exceed the flux, so a
+     * one-pixel noise spike fitted by a very narrow Gaussian does not pass for a strong line.
+     */
+    private static double topPixel(double flux, double s) {
+        return flux * org.apache.commons.math3.special.Erf.erf(0.5 / (s * Math.sqrt(2)));
+    }
+
+    private static int nearest(double pixel, int n) {
+        return (int) Math.max(0, Math.min(n - 1, Math.round(pixel)));
+    }
+
+    private static int weakest(List<Integer> members, double[] line, int[] candidates) {
+        int weakest = members.get(0);
+        for (int k : members) {
+            if (line[candidates[k]] < line[candidates[weakest]]) {
+                weakest = k;
+            }
+        }
+        return weakest;
+    }
+
+    /**
+     * The Wilson-Hilferty approximation to a quantile of chi-square over its degrees of freedom:
+     * (1 - 2/(9 nu) + z sqrt(2/(9 nu)))^3 for the standard normal quantile z (E. B. Wilson and
+     * M. M. Hilferty, PNAS 17, 684 (1931)).
+     */
+    static double reducedChiSquareQuantile(double z, int dof) {
+        double a = 2.0 / (9 * dof);
+        double b = 1 - a + z * Math.sqrt(a);
+        return b * b * b;
+    }
+
+    /** Gathers accepted peaks, their fits and unfitted candidates, then scales and sorts them into {@link Peaks}. */
+    private static final class Collector {
+        private static final double Z99 = 2.3263478740408408;
+        private static final int MIN_FITS_TO_POOL = 5;
+
+        private double[][] columns;
+        private int[] flags;
+        private int[] fitOf;
+        private int size;
+        private double[] fitChiSquare = new double[8];
+        private int[] fitDof = new int[8];
+        private int fits;
+        private int[] unfitted = new int[4];
+        private int unfittedSize;
+
+        Collector(int capacity) {
+            columns = new double[7][Math.max(1, capacity)];
+            flags = new int[Math.max(1, capacity)];
+            fitOf = new int[Math.max(1, capacity)];
+        }
+
+        /** @return the index of a new fit */
+        int newFit(double chiSquare, int dof) {
+            if (fits == fitDof.length) {
+                fitChiSquare = Arrays.copyOf(fitChiSquare, 2 * fits);
+                fitDof = Arrays.copyOf(fitDof, 2 * fits);
+            }
+            fitChiSquare[fits] = chiSquare;
+            fitDof[fits] = dof;
+            return fits++;
+        }
+
+        void add(int fit, double centre, double centreVariance, double flux, double fluxVariance, double height,
+                double fwhm, double snr, int flag) {
+            if (size == flags.length) {
+                for (int c = 0; c < columns.length; c++) {
+                    columns[c] = Arrays.copyOf(columns[c], 2 * size);
+                }
+                flags = Arrays.copyOf(flags, 2 * size);
+                fitOf = Arrays.copyOf(fitOf, 2 * size);
+            }
+            double[] row = {centre, centreVariance, flux, fluxVariance, height, fwhm, snr};
+            for (int c = 0; c < row.length; c++) {
+                columns[c][size] = row[c];
+            }
+            flags[size] = flag;
+            fitOf[size] = fit;
+            size++;
+        }
+
+        void unfitted(int pixel) {
+            if (unfittedSize == unfitted.length) {
+                unfitted = Arrays.copyOf(unfitted, 2 * unfittedSize);
+            }
+            unfitted[unfittedSize++] = pixel;
+        }
+
+        Peaks build(int pixels, double[] noise, double[] baseline, boolean sigmasGiven) {
+            // The pooled scale F (see the class comment), then each fit's scale.
+            double pooled = 1;
+            boolean perFit = false;
+            if (!sigmasGiven) {
+                if (fits >= MIN_FITS_TO_POOL) {
+                    double[] reduced = new double[fits];
+                    int[] dofs = Arrays.copyOf(fitDof, fits);
+                    for (int f = 0; f < fits; f++) {
+                        reduced[f] = fitChiSquare[f] / fitDof[f];
+                    }
+                    double medianDof = Baseline.median(Arrays.stream(dofs).asDoubleStream().toArray(), fits);
+                    pooled = Baseline.median(reduced, fits) / reducedChiSquareQuantile(0, (int) Math.round(medianDof));
+                } else {
+                    perFit = true;
+                    pooled = Double.NaN;
+                }
+            }
+            double[] scale = new double[fits];
+            boolean[] poor = new boolean[fits];
+            for (int f = 0; f < fits; f++) {
+                double reduced = fitChiSquare[f] / fitDof[f];
+                if (perFit) {
+                    scale[f] = reduced;
+                } else if (reduced / pooled > reducedChiSquareQuantile(Z99, fitDof[f])) {
+                    scale[f] = reduced;
+                    poor[f] = true;
+                } else {
+                    scale[f] = pooled;
+                }
+            }
+            Integer[] order = new Integer[size];
+            for (int i = 0; i < size; i++) {
+                order[i] = i;
+            }
+            double[] centres = columns[0];
+            Arrays.sort(order, (a, b) -> Double.compare(centres[a], centres[b]));
+            double[][] sorted = new double[columns.length + 1][size];
+            int[] sortedFlags = new int[size];
+            for (int i = 0; i < size; i++) {
+                int k = order[i];
+                for (int c = 0; c < columns.length; c++) {
+                    sorted[c][i] = columns[c][k];
+                }
+                int f = fitOf[k];
+                sorted[1][i] = Math.sqrt(columns[1][k] * scale[f]);
+                sorted[3][i] = Math.sqrt(columns[3][k] * scale[f]);
+                sorted[7][i] = fitChiSquare[f] / fitDof[f];
+                sortedFlags[i] = flags[k] | (poor[f] ? PeakFlag.POOR_FIT.bit() : 0);
+            }
+            int[] unfittedSorted = Arrays.copyOf(unfitted, unfittedSize);
+            Arrays.sort(unfittedSorted);
+            return new Peaks(pixels, sorted[0], sorted[1], sorted[2], sorted[3], sorted[4], sorted[5], sorted[6],
+                    sorted[7], sortedFlags, noise, pooled, baseline, unfittedSorted, sigmasGiven);
+        }
+    }
+}

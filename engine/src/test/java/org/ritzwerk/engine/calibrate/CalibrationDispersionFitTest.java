@@ -1,0 +1,211 @@
+package org.ritzwerk.engine.calibrate;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.ritzwerk.engine.calibrate.CalibrationPeakFinderTest.assertMessage;
+
+import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.medium.Medium;
+
+/** The weighted, clipped polynomial fit and what its solution does. */
+class CalibrationDispersionFitTest {
+
+    private static final double[] CUBIC = LampScene.TRUTH; // nm at pixel p: c0 + c1 p + c2 p^2 + c3 p^3
+
+    private static double cubic(double p) {
+        return LampScene.truthAt(p);
+    }
+
+    /** 40 pixels spread irregularly over 4096. */
+    private static double[] pixels() {
+        double[] p = new double[40];
+        for (int i = 0; i < p.length; i++) {
+            p[i] = 30 + 100.3 * i + 17 * Math.sin(i * 1.7);
+        }
+        return p;
+    }
+
+    @Test
+    void exactCubicIsRecovered() {
+        double[] p = pixels();
+        double[] nm = new double[p.length];
+        double[] sigma = new double[p.length];
+        for (int i = 0; i < p.length; i++) {
+            nm[i] = cubic(p[i]);
+            sigma[i] = 0.02;
+        }
+        DispersionSolution s = DispersionFit.ofDegree(3).fit(p, sigma, nm, null, Medium.air());
+        assertEquals(3, s.degree());
+        assertEquals(0, s.rejectedCount());
+        double[] b = s.powerCoefficients();
+        for (int j = 0; j < 4; j++) {
+            assertEquals(CUBIC[j], b[j], 1e-9 * Math.abs(CUBIC[j]), "coefficient " + j);
+        }
+        for (double q = -0.5; q < 4096; q += 97.3) {
+            assertEquals(cubic(q), s.wavelengthAt(q), 1e-9, "wavelength at " + q);
+            assertEquals(LampScene.truthDispersionAt(q), s.dispersionAt(q), 1e-11, "dispersion at " + q);
+            assertEquals(q, s.pixelAt(s.wavelengthAt(q)), 1e-8, "inverse at " + q);
+        }
+        assertTrue(s.rmsNm() < 1e-10 && s.rmsPixels() < 1e-9, "rms " + s.rmsNm());
+        assertEquals(1, s.covarianceScale(), "exact data: chi-square 0, no inflation");
+        assertEquals(p.length - 4, s.degreesOfFreedom());
+        assertEquals(Medium.air(), s.medium());
+        double[] centres = s.pixelCentreWavelengths(4096);
+        double[] edges = s.pixelEdgeWavelengths(4096);
+        assertEquals(4096, centres.length);
+        assertEquals(4097, edges.length);
+        assertEquals(cubic(2000), centres[2000], 1e-9);
+        assertEquals(cubic(1999.5), edges[2000], 1e-9);
+        // The same polynomial from stored coefficients, as a calibration file would give it.
+        DispersionSolution stored = DispersionSolution.of(s.centrePixel(), s.halfRange(), s.scaledCoefficients(),
+                s.covariance(), s.lowestPixel(), s.highestPixel(), s.medium());
+        assertEquals(s.wavelengthAt(1234.5), stored.wavelengthAt(1234.5), 0);
+        assertEquals(s.wavelengthSigmaAt(1234.5), stored.wavelengthSigmaAt(1234.5), 0);
+        assertEquals(0, stored.size());
+        assertTrue(Double.isNaN(stored.rmsNm()));
+    }
+
+    @Test
+    void statedWavelengthUncertaintyMatchesMonteCarloScatter() {
+        // 400 noisy replicas of the same pairs (centroid sigma 0.05 px); at each test pixel the
+        // scatter of the fitted wavelength should match the stated sigma (which, with correct
+        // input sigmas, is the exact linear-least-squares covariance; the Birge factor only
+        // inflates it when chi-square per degree of freedom exceeds 1, by about 10 % on average
+        // here). The band allows for that inflation and for 400 replicas (3.5 % on a scatter).
+        double[] p = pixels();
+        double[] sigma = new double[p.length];
+        java.util.Arrays.fill(sigma, 0.05);
+        double[] test = {0, 700, 2048, 3500, 4095};
+        double[] sum = new double[test.length];
+        double[] sumSquares = new double[test.length];
+        double[] stated = new double[test.length];
+        SplittableRandom random = new SplittableRandom(2024);
+        int replicas = 400;
+        for (int r = 0; r < replicas; r++) {
+            double[] noisy = new double[p.length];
+            double[] nm = new double[p.length];
+            for (int i = 0; i < p.length; i++) {
+                noisy[i] = p[i] + 0.05 * gaussian(random);
+                nm[i] = cubic(p[i]);
+            }
+            DispersionSolution s = DispersionFit.ofDegree(3).withoutClipping().fit(noisy, sigma, nm, null,
+                    Medium.air());
+            for (int t = 0; t < test.length; t++) {
+                double e = s.wavelengthAt(test[t]) - cubic(test[t]);
+                sum[t] += e;
+                sumSquares[t] += e * e;
+                stated[t] += s.wavelengthSigmaAt(test[t]) / replicas;
+            }
+        }
+        for (int t = 0; t < test.length; t++) {
+            double mean = sum[t] / replicas;
+            double scatter = Math.sqrt(sumSquares[t] / replicas - mean * mean);
+            double ratio = stated[t] / scatter;
+            assertTrue(ratio > 0.9 && ratio < 1.2, "pixel " + test[t] + ": stated " + stated[t] + " nm, scatter "
+                    + scatter + " nm");
+            assertTrue(Math.abs(mean) < 4 * scatter / Math.sqrt(replicas), "unbiased at " + test[t]);
+        }
+    }
+
+    @Test
+    void clippingRejectsAMisidentifiedPair() {
+        double[] p = pixels();
+        double[] nm = new double[p.length];
+        double[] sigma = new double[p.length];
+        SplittableRandom random = new SplittableRandom(7);
+        for (int i = 0; i < p.length; i++) {
+            nm[i] = cubic(p[i] + 0.03 * gaussian(random));
+            sigma[i] = 0.03;
+        }
+        nm[17] += 0.4; // about 3 pixels off: a wrong line
+        DispersionSolution s = DispersionFit.ofDegree(3).fit(p, sigma, nm, null, Medium.air());
+        assertEquals(1, s.rejectedCount());
+        assertTrue(s.isRejected(17));
+        // The pair's own noise (0.03 px) comes on top of the 0.4 nm shift.
+        assertEquals(0.4 / LampScene.truthDispersionAt(p[17]), s.residualPixels(17), 0.1);
+        assertTrue(s.rmsPixels() < 0.06, "rms of the rest " + s.rmsPixels());
+        DispersionSolution unclipped = DispersionFit.ofDegree(3).withoutClipping().fit(p, sigma, nm, null,
+                Medium.air());
+        assertEquals(0, unclipped.rejectedCount());
+        assertTrue(unclipped.covarianceScale() > 10, "the outlier shows in chi-square: " + unclipped.covarianceScale());
+    }
+
+    @Test
+    void automaticDegreeFindsTheCubic() {
+        // AICc on 40 pairs with 0.05 px noise: the cubic term shifts wavelengths by ~7 nm, the
+        // quadratic cannot absorb it, and quartic or higher terms rarely pay their penalty.
+        int cubics = 0;
+        for (long seed = 1; seed <= 20; seed++) {
+            SplittableRandom random = new SplittableRandom(seed);
+            double[] p = pixels();
+            double[] nm = new double[p.length];
+            double[] sigma = new double[p.length];
+            for (int i = 0; i < p.length; i++) {
+                nm[i] = cubic(p[i] + 0.05 * gaussian(random));
+                sigma[i] = 0.05;
+            }
+            DispersionSolution s = DispersionFit.automatic(6).fit(p, sigma, nm, null, Medium.air());
+            assertTrue(s.degree() >= 3, "seed " + seed + ": degree " + s.degree());
+            assertTrue(s.aicc(2) > s.aicc(3), "seed " + seed);
+            if (s.degree() == 3) {
+                cubics++;
+            }
+        }
+        assertTrue(cubics >= 15, "cubic chosen " + cubics + " times of 20");
+    }
+
+    @Test
+    void unweightedFitTakesItsUncertaintyFromTheScatter() {
+        double[] p = pixels();
+        double[] nm = new double[p.length];
+        SplittableRandom random = new SplittableRandom(3);
+        for (int i = 0; i < p.length; i++) {
+            nm[i] = cubic(p[i]) + 0.01 * gaussian(random);
+        }
+        DispersionSolution s = DispersionFit.ofDegree(3).fit(p, null, nm, null, Medium.vacuum());
+        assertEquals(0.01, s.rmsNm(), 0.004);
+        assertEquals(s.reducedChiSquare(), s.covarianceScale(), 1e-12);
+        assertTrue(Double.isNaN(s.sigmaNm(0)));
+        assertTrue(s.wavelengthSigmaAt(2000) > 0.001 && s.wavelengthSigmaAt(2000) < 0.01);
+    }
+
+    @Test
+    void badInputsAreNamed() {
+        DispersionFit fit = DispersionFit.ofDegree(3);
+        double[] p = {10, 500, 1000, 1500, 2000, 2500};
+        double[] nm = {400, 450, 500, 550, 600, 650};
+        double[] sigma = {0.1, 0.1, 0.1, 0.1, 0.1, 0.1};
+        assertMessage("one value per pair: 6, 6, 5, -", () -> fit.fit(p, sigma, new double[5], null, Medium.air()));
+        double[] badPixel = p.clone();
+        badPixel[2] = Double.NaN;
+        assertMessage("pair 2: pixel must be finite", () -> fit.fit(badPixel, sigma, nm, null, Medium.air()));
+        double[] badNm = nm.clone();
+        badNm[4] = -1;
+        assertMessage("pair 4: wavelength must be finite and positive", () -> fit.fit(p, sigma, badNm, null,
+                Medium.air()));
+        double[] zero = sigma.clone();
+        zero[1] = 0;
+        assertMessage("pair 1 has no uncertainty", () -> fit.fit(p, zero, nm, null, Medium.air()));
+        assertMessage("needs at least 5 pairs at 4 distinct pixels, got 4 pairs",
+                () -> fit.fit(new double[] {1, 2, 3, 4}, null, new double[] {1, 2, 3, 4}, null, Medium.air()));
+        assertMessage("dispersion degree must be 1 to 9", () -> DispersionFit.ofDegree(0));
+        assertMessage("clipping threshold", () -> fit.withClipping(0.5, 3));
+        DispersionSolution s = fit.fit(p, sigma, nm, null, Medium.air());
+        assertFalse(Double.isNaN(s.pixelAt(525)));
+        assertMessage("must be finite", () -> s.pixelAt(Double.NaN));
+        // A parabola that turns at its top reaches no wavelength above it.
+        DispersionSolution turning = DispersionSolution.of(0, 1000, new double[] {500, 0, -10}, null, -1000, 1000,
+                Medium.air());
+        assertMessage("does not reach 600.0 nm", () -> turning.pixelAt(600));
+        assertTrue(Double.isNaN(turning.wavelengthSigmaAt(0)), "no covariance stored");
+        assertMessage("covariance must be 3 x 3", () -> DispersionSolution.of(0, 1, new double[] {1, 2, 3},
+                new double[2][2], 0, 1, Medium.air()));
+    }
+
+    static double gaussian(SplittableRandom random) {
+        // Box-Muller (common practice).
+        return Math.sqrt(-2 * Math.log(1 - random.nextDouble())) * Math.cos(2 * Math.PI * random.nextDouble());
+    }
+}

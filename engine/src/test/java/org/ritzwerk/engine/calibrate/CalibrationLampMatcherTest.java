@@ -1,0 +1,190 @@
+package org.ritzwerk.engine.calibrate;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.medium.Medium;
+
+/** Identification of lamp lines among peak lists whose truth is known. */
+class CalibrationLampMatcherTest {
+
+    static final LampLines NEON = LampLines.of(LampScene.NEON_NM, LampScene.NEON_INTENSITY, null, Medium.air());
+
+    /**
+     * Ar I, air, nm, and relative intensities, copied from
+     * refdata/src/main/resources/org/ritzwerk/refdata/lamps/lamp-ar-i.csv (Sansonetti and Martin,
+     * J. Phys. Chem. Ref. Data 34, 1559 (2005), table of strong Ar lines).
+     */
+    static final LampLines ARGON = LampLines.of(new double[] {
+        415.8590, 419.0713, 419.8317, 420.0674, 425.9362, 426.6286, 427.2169, 430.0101, 433.3561, 451.0733, 603.2127,
+        641.6307, 667.7282, 675.2834, 687.1289, 696.5431, 703.0251, 706.7218, 706.8736, 714.7042, 720.6980, 727.2936,
+        735.3293, 737.2118, 738.3980, 750.3869, 751.4652, 763.5106, 772.3761, 772.4207, 794.8176, 800.6157, 801.4786,
+        810.3693, 811.5311, 826.4522, 840.8210, 842.4648, 852.1442, 866.7944, 884.991, 912.2967, 919.4638, 922.4499,
+        929.1531, 935.4220, 965.7786, 978.4503}, new double[] {
+        11, 3, 6, 11, 6, 3, 4, 3, 3, 3, 2, 2, 3, 4, 4, 300, 4, 300, 3, 30, 2, 60, 2, 6, 300, 600, 400, 700, 400, 300,
+        600, 600, 700, 600, 1000, 300, 400, 600, 400, 130, 5, 1000, 15, 400, 11, 50, 700, 130}, null, Medium.air());
+
+    /** A peak list: every neon line on the detector plus contaminants, with truth kept. */
+    static final class Scene {
+        final double[] centre;
+        final double[] sigma;
+        final double[] intensity;
+        /** Per peak: the index of its neon line, or -1 for a contaminant. */
+        final int[] line;
+
+        Scene(long seed, int contaminants, boolean reversed) {
+            SplittableRandom random = new SplittableRandom(seed);
+            int n = 0;
+            int[] onDetector = new int[LampScene.NEON_NM.length];
+            for (int l = 0; l < LampScene.NEON_NM.length; l++) {
+                double p = LampScene.truthPixelOf(LampScene.NEON_NM[l]);
+                if (p > 5 && p < LampScene.PIXELS - 5) {
+                    onDetector[n++] = l;
+                }
+            }
+            int size = n + contaminants;
+            centre = new double[size];
+            sigma = new double[size];
+            intensity = new double[size];
+            line = new int[size];
+            for (int k = 0; k < size; k++) {
+                double p;
+                if (k < n) {
+                    line[k] = onDetector[k];
+                    p = LampScene.truthPixelOf(LampScene.NEON_NM[line[k]]);
+                    // A lamp's relative intensities differ from the table's by factors of ~2.
+                    intensity[k] = LampScene.NEON_INTENSITY[line[k]] * Math.exp(0.7 * (random.nextDouble() - 0.5));
+                } else {
+                    line[k] = -1;
+                    p = 20 + (LampScene.PIXELS - 40) * random.nextDouble();
+                    intensity[k] = 100 + 500 * random.nextDouble();
+                }
+                sigma[k] = 0.05;
+                double noisy = p + sigma[k] * CalibrationDispersionFitTest.gaussian(random);
+                centre[k] = reversed ? LampScene.PIXELS - 1 - noisy : noisy;
+            }
+        }
+    }
+
+    private static void assertCorrect(Scene scene, LampMatch match, int atLeast) {
+        assertTrue(match.size() >= atLeast, "matched " + match.size());
+        for (int i = 0; i < match.size(); i++) {
+            int k = match.peakIndex(i);
+            assertEquals(scene.line[k], match.lineIndex(i), "peak " + k + " at " + scene.centre[k] + " px");
+            assertEquals(LampScene.NEON_NM[match.lineIndex(i)], match.wavelength(i), 0);
+            assertEquals(scene.centre[k], match.pixel(i), 0);
+        }
+    }
+
+    @Test
+    void findsTheRightLinesWithAndWithoutPrior() {
+        Scene scene = new Scene(1, 6, false);
+        LampMatcher rough = LampMatcher.defaults().withPrior(new LampMatcher.Prior(300, 1000, 0.08, 0.3));
+        LampMatch withPrior = rough.match(scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, NEON);
+        // Every neon line on the detector except the two pairs closer than the tolerance
+        // (865.44/865.55 and 878.06/878.38 nm, where the nearer of each pair may win).
+        assertCorrect(scene, withPrior, 49);
+        assertTrue(withPrior.inlierFraction() >= 0.6, "inliers " + withPrior.inlierFraction());
+        assertEquals(350, withPrior.firstWavelength(), 0.05);
+        assertEquals(900, withPrior.lastWavelength(), 0.05);
+        LampMatch free = LampMatcher.defaults().match(scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS,
+                NEON);
+        assertArrayEquals(withPrior.wavelengths(), free.wavelengths(), "same pairs without a prior");
+        assertTrue(free.hypotheses() > withPrior.hypotheses(), "the prior prunes the search");
+    }
+
+    @Test
+    void heavyContaminationNeedsMoreStrongPeaks() {
+        // Ten contaminants as strong as the lamp's lines fill 10 of the 25 strongest places;
+        // for this scene the default search then misses the solution (found by trial), and
+        // searching the 40 strongest peaks and lines finds it again.
+        Scene scene = new Scene(1, 10, false);
+        LampMatch match = LampMatcher.defaults().withStrongest(40, 40).match(scene.centre, scene.sigma,
+                scene.intensity, LampScene.PIXELS, NEON);
+        assertCorrect(scene, match, 49);
+    }
+
+    @Test
+    void findsAFallingDispersion() {
+        Scene scene = new Scene(2, 6, true);
+        LampMatch match = LampMatcher.defaults().match(scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS,
+                NEON);
+        assertCorrect(scene, match, 49);
+        assertEquals(900, match.firstWavelength(), 0.05);
+        assertEquals(350, match.lastWavelength(), 0.05);
+        DispersionSolution solution = match.fit(DispersionFit.ofDegree(3));
+        assertTrue(solution.dispersionAt(2000) < 0);
+        assertTrue(solution.rmsPixels() < 0.1, "rms " + solution.rmsPixels());
+    }
+
+    @Test
+    void sameInputSameAnswer() {
+        Scene scene = new Scene(3, 10, false);
+        LampMatch a = LampMatcher.defaults().match(scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, NEON);
+        LampMatch b = LampMatcher.defaults().match(scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, NEON);
+        assertArrayEquals(a.pixels(), b.pixels());
+        assertArrayEquals(a.wavelengths(), b.wavelengths());
+    }
+
+    @Test
+    void tooFewPeaks() {
+        CalibrationException e = assertThrows(CalibrationException.class, () -> LampMatcher.defaults().match(
+                new double[] {100, 900, 2000}, new double[] {0.1, 0.1, 0.1}, new double[] {1, 1, 1}, 4096, NEON));
+        assertEquals(CalibrationException.TOO_FEW_PEAKS, e.code());
+        assertTrue(e.getMessage().contains("found 3 peaks"), e.getMessage());
+    }
+
+    @Test
+    void tooFewLinesInThePriorRange() {
+        Scene scene = new Scene(4, 0, false);
+        LampMatcher blue = LampMatcher.defaults().withPrior(new LampMatcher.Prior(150, 300, 0.01, 0.1));
+        CalibrationException e = assertThrows(CalibrationException.class,
+                () -> blue.match(scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, NEON));
+        assertEquals(CalibrationException.TOO_FEW_LINES, e.code());
+        assertTrue(e.getMessage().contains("has 0 of its 59 lines"), e.getMessage());
+        LampLines three = LampLines.of(new double[] {585.24879, 640.2248, 692.94673}, null, null, Medium.air());
+        CalibrationException few = assertThrows(CalibrationException.class, () -> LampMatcher.defaults().match(
+                scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, three));
+        assertEquals(CalibrationException.TOO_FEW_LINES, few.code());
+    }
+
+    @Test
+    void wrongDispersionPriorNamesTheSolutionOutsideIt() {
+        Scene scene = new Scene(5, 8, false);
+        LampMatcher wrong = LampMatcher.defaults().withPrior(new LampMatcher.Prior(300, 1000, 0.3, 0.6));
+        CalibrationException e = assertThrows(CalibrationException.class,
+                () -> wrong.match(scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, NEON));
+        assertEquals(CalibrationException.OUTSIDE_PRIOR, e.code());
+        CalibrationEndToEndTest.assertNamesTheTrueRange(e.getMessage());
+    }
+
+    @Test
+    void aLampThatDoesNotFitIsRefused() {
+        // Neon peaks against the argon list: whatever the search pairs up by chance falls far
+        // short of half the strongest peaks.
+        Scene scene = new Scene(6, 8, false);
+        CalibrationException e = assertThrows(CalibrationException.class, () -> LampMatcher.defaults().match(
+                scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, ARGON));
+        assertEquals(CalibrationException.LAMP_MISMATCH, e.code(), e.getMessage());
+        assertTrue(e.getMessage().contains("do not explain the spectrum"), e.getMessage());
+    }
+
+    @Test
+    void badArgumentsAreNamed() {
+        LampMatcher m = LampMatcher.defaults();
+        CalibrationPeakFinderTest.assertMessage("peak 1: centroid must lie on the detector", () -> m.match(
+                new double[] {1, 5000, 3, 4}, new double[] {1, 1, 1, 1}, new double[] {1, 1, 1, 1}, 4096, NEON));
+        CalibrationPeakFinderTest.assertMessage("peak 2: centroid uncertainty must be finite and > 0", () -> m.match(
+                new double[] {1, 2, 3, 4}, new double[] {1, 1, 0, 1}, new double[] {1, 1, 1, 1}, 4096, NEON));
+        CalibrationPeakFinderTest.assertMessage("wavelength range must satisfy", () -> new LampMatcher.Prior(900,
+                300, 0.1, 0.2));
+        CalibrationPeakFinderTest.assertMessage("line 1: wavelength must be finite and positive", () -> LampLines.of(
+                new double[] {500, Double.NaN}, null, null, Medium.air()));
+        CalibrationPeakFinderTest.assertMessage("the lamp line list is empty", () -> LampLines.of(new double[0], null,
+                null, Medium.air()));
+    }
+}

@@ -1,0 +1,205 @@
+package org.ritzwerk.engine.calibrate;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.Arrays;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.LineRenderer;
+import org.ritzwerk.engine.synth.Noise;
+import org.ritzwerk.engine.synth.PixelGrid;
+
+/** Peak detection and LM centroids on spectra with known line positions. */
+class CalibrationPeakFinderTest {
+
+    /**
+     * Renders Gaussian lines on a grid whose pixel i covers [i - 1/2, i + 1/2), so positions are
+     * in pixels, on a constant baseline. The renderer integrates each pixel by Gauss-Legendre
+     * quadrature to about 1e-10 (its Javadoc): an independent check of the fit's erf model.
+     */
+    private static double[] render(int pixels, double baseline, double[] centre, double[] flux, double fwhm) {
+        PixelGrid grid = PixelGrid.linear(-0.5, pixels - 0.5, pixels);
+        double[] out = new double[pixels];
+        Arrays.fill(out, baseline);
+        double[] widths = new double[centre.length];
+        Arrays.fill(widths, fwhm);
+        new LineRenderer(grid, Instrument.ideal(), 20).render(centre, flux, widths, new double[centre.length], out);
+        return out;
+    }
+
+    @Test
+    void noiselessGaussianCentroidIsExact() {
+        for (double centre : new double[] {50, 50.25, 50.5, 50.7317, 37.0901}) {
+            double[] counts = render(101, 100, new double[] {centre}, new double[] {1e4}, 3.1);
+            Peaks peaks = PeakFinder.defaults().find(counts);
+            assertEquals(1, peaks.size(), "one line at " + centre);
+            assertEquals(centre, peaks.centre(0), 1e-6, "centroid");
+            assertEquals(3.1, peaks.fwhm(0), 1e-5, "FWHM");
+            assertEquals(1e4, peaks.flux(0), 1e-5 * 1e4, "flux");
+            // Height: the flux in a pixel centred on the line, flux erf(1 / (2 sqrt 2 s)); the value
+            // below is that for s = 3.1 / 2.35482 pixels, from the standard normal table.
+            double s = 3.1 / (2 * Math.sqrt(2 * Math.log(2)));
+            assertEquals(1e4 * (2 * normalCdf(0.5 / s) - 1), peaks.height(0), 1e-3, "height");
+            assertTrue(peaks.centreSigma(0) < 1e-6, "a noiseless fit is sharp: " + peaks.centreSigma(0));
+            assertTrue(peaks.flags(0).isEmpty(), "no flags: " + peaks.flags(0));
+            assertEquals(0, peaks.unfitted().length);
+        }
+    }
+
+    /** Eight isolated lines of assorted strength per spectrum, at known sub-pixel positions. */
+    private static final double[] ISOLATED = {40.3, 95.55, 150.81, 207.02, 261.7, 318.45, 371.13, 430.9};
+    private static final double[] ISOLATED_FLUX = {3e3, 1e4, 5e4, 2e3, 2e4, 8e3, 1.5e3, 3e4};
+
+    @Test
+    void centroidUncertaintiesMatchTheScatter() {
+        // Over 60 exposures the normalised errors (found - true) / sigma should have unit RMS,
+        // whether the pixel variances are modelled or given; a 10 % band allows for the 480
+        // samples (RMS known to about 3 %) and the pooled scale's own error.
+        double[] expected = render(470, 400, ISOLATED, ISOLATED_FLUX, 3.0);
+        double[] sigma = new double[expected.length];
+        for (int i = 0; i < sigma.length; i++) {
+            sigma[i] = Math.sqrt(expected[i] + 16);
+        }
+        for (boolean given : new boolean[] {false, true}) {
+            double sumSquares = 0;
+            double scaleSum = 0;
+            int n = 0;
+            double[] counts = new double[expected.length];
+            for (long seed = 1; seed <= 60; seed++) {
+                Noise.apply(expected, 4, seed, counts);
+                Peaks peaks = given ? PeakFinder.defaults().find(counts, sigma) : PeakFinder.defaults().find(counts);
+                assertEquals(ISOLATED.length, peaks.size(), "seed " + seed);
+                assertEquals(given, peaks.pixelSigmasGiven());
+                for (int k = 0; k < peaks.size(); k++) {
+                    double z = (peaks.centre(k) - ISOLATED[k]) / peaks.centreSigma(k);
+                    sumSquares += z * z;
+                    n++;
+                }
+                if (given) {
+                    assertEquals(1, peaks.noiseScale());
+                }
+                scaleSum += peaks.noiseScale();
+            }
+            double rms = Math.sqrt(sumSquares / n);
+            assertTrue(rms > 0.9 && rms < 1.1, (given ? "given" : "modelled") + " sigmas: RMS of z = " + rms);
+            // Poisson counts with gain 1: the modelled variances are right on average, so the
+            // pooled scale averages near 1 (one spectrum's scatters by some 30 %: 8 fits, and a
+            // background noise measured on 400 pixels).
+            double meanScale = scaleSum / 60;
+            assertTrue(meanScale > 0.85 && meanScale < 1.15, "mean pooled scale " + meanScale);
+        }
+    }
+
+    @Test
+    void closePeaksAreFittedTogether() {
+        // Two lines 4 px apart with FWHM 3 px: resolved maxima, overlapping wings.
+        double[] truth = {100.2, 104.35};
+        double[] expected = render(200, 200, truth, new double[] {2e4, 8e3}, 3.0);
+        double[] counts = new double[expected.length];
+        Noise.apply(expected, 3, 11, counts);
+        Peaks peaks = PeakFinder.defaults().find(counts);
+        assertEquals(2, peaks.size());
+        for (int k = 0; k < 2; k++) {
+            assertTrue(peaks.has(k, PeakFlag.BLENDED), "peak " + k + " flagged blended");
+            double z = (peaks.centre(k) - truth[k]) / peaks.centreSigma(k);
+            assertTrue(Math.abs(z) < 4, "peak " + k + ": " + peaks.centre(k) + " +- " + peaks.centreSigma(k));
+            assertEquals(3.0, peaks.fwhm(k), 0.15);
+        }
+        assertEquals(2e4, peaks.flux(0), 4 * peaks.fluxSigma(0));
+        assertEquals(8e3, peaks.flux(1), 4 * peaks.fluxSigma(1));
+    }
+
+    @Test
+    void saturatedPeakIsFlaggedAndCentredFromItsWings() {
+        double truth = 80.37;
+        double[] counts = render(160, 300, new double[] {truth, 30.4}, new double[] {3e5, 2e4}, 3.4);
+        double level = 30000; // the strong line peaks near 8e4 counts: its top 3 pixels are cut
+        int cut = 0;
+        for (int i = 0; i < counts.length; i++) {
+            if (counts[i] >= level) {
+                counts[i] = level;
+                cut++;
+            }
+        }
+        assertTrue(cut >= 2, "the test needs a saturated top, got " + cut + " pixels");
+        Peaks peaks = PeakFinder.defaults().withSaturationLevel(level).find(counts);
+        assertEquals(2, peaks.size());
+        assertFalse(peaks.has(0, PeakFlag.SATURATED));
+        assertTrue(peaks.has(1, PeakFlag.SATURATED));
+        assertEquals(truth, peaks.centre(1), 1e-6, "the wings fix a noiseless centroid");
+        assertEquals(3e5, peaks.flux(1), 1e-3 * 3e5, "and the flux");
+    }
+
+    @Test
+    void pureNoiseHasNoPeaks() {
+        double[] expected = new double[4096];
+        Arrays.fill(expected, 500);
+        double[] counts = new double[expected.length];
+        Noise.apply(expected, 5, 99, counts);
+        Peaks peaks = PeakFinder.defaults().find(counts);
+        assertEquals(0, peaks.size(), "a 5-sigma threshold lets no noise through in 4096 pixels");
+        double noise = peaks.noise()[2000];
+        assertEquals(Math.sqrt(525), noise, 0.1 * Math.sqrt(525), "background noise");
+    }
+
+    @Test
+    void thresholdDecidesWhichLinesCount() {
+        // Heights of about 3 and 12 background sigmas: only the second passes a threshold of 5.
+        double[] expected = render(300, 400, new double[] {100, 200}, new double[] {220, 880}, 3.0);
+        double[] counts = new double[expected.length];
+        Noise.apply(expected, 0, 5, counts);
+        Peaks peaks = PeakFinder.defaults().find(counts);
+        assertEquals(1, peaks.size());
+        assertEquals(200, peaks.centre(0), 5 * peaks.centreSigma(0));
+        assertTrue(peaks.signalToNoise(0) > 5);
+        Peaks lower = PeakFinder.defaults().withThreshold(1.5).find(counts);
+        assertTrue(lower.size() >= 2, "a lower threshold finds the weak line too");
+    }
+
+    @Test
+    void badInputsAreNamed() {
+        PeakFinder finder = PeakFinder.defaults();
+        assertMessage("the spectrum is empty", () -> finder.find(new double[0]));
+        assertMessage("at least 8 pixels", () -> finder.find(new double[5]));
+        double[] counts = render(64, 100, new double[] {30}, new double[] {1e3}, 3);
+        double[] nan = counts.clone();
+        nan[17] = Double.NaN;
+        assertMessage("pixel 17: counts must be finite", () -> finder.find(nan));
+        double[] negative = counts.clone();
+        negative[3] = -2;
+        assertMessage("pixel 3: counts must not be negative", () -> finder.find(negative));
+        assertEquals(1, finder.withNegativeCountsAllowed(true).find(negative).size(), "allowed when asked");
+        double[] constant = new double[64];
+        Arrays.fill(constant, 7);
+        assertMessage("the spectrum is constant (all 64 pixels are 7.0 counts)", () -> finder.find(constant));
+        assertMessage("all 64 pixels are saturated (at or above 50.0 counts)",
+                () -> finder.withSaturationLevel(50).find(counts));
+        assertMessage("one value per pixel (64), got 3", () -> finder.find(counts, new double[3]));
+        double[] sigma = new double[64];
+        Arrays.fill(sigma, 1);
+        sigma[5] = 0;
+        assertMessage("pixel 5: uncertainty must be finite and positive", () -> finder.find(counts, sigma));
+        assertMessage("threshold must be", () -> finder.withThreshold(Double.NaN));
+        assertMessage("baseline window must be at least 5", () -> finder.withBaselineWindow(4));
+    }
+
+    /** The standard normal distribution function, by the erf series of Abramowitz and Stegun 7.1.5 (to 1e-15 here). */
+    static double normalCdf(double x) {
+        double z = x / Math.sqrt(2);
+        double term = z;
+        double sum = z;
+        for (int k = 1; k < 60; k++) {
+            term *= -z * z / k;
+            sum += term / (2 * k + 1);
+        }
+        return 0.5 + sum / Math.sqrt(Math.PI);
+    }
+
+    static void assertMessage(String fragment, org.junit.jupiter.api.function.Executable call) {
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, call);
+        assertTrue(e.getMessage().contains(fragment), "message '" + e.getMessage() + "' lacks '" + fragment + "'");
+    }
+}
