@@ -14,7 +14,7 @@ import picocli.CommandLine.Command;
         versionProvider = RitzwerkCommand.Version.class,
         description = "Atomic energy levels and spectral lines for instrument, sensor and simulation work.",
         subcommands = {ConvertCommand.class, LevelsCommand.class, LinesCommand.class, IdentifyCommand.class,
-            DataCommand.class, SynthCommand.class, DemoCommand.class,
+            DataCommand.class, SynthCommand.class, CalibrateCommand.class, DemoCommand.class,
             CommandLine.HelpCommand.class})
 final class RitzwerkCommand implements Runnable {
 

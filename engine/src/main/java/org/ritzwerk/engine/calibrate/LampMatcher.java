@@ -60,7 +60,7 @@ public final class LampMatcher {
     /** Default number of strongest peaks searched. */
     public static final int DEFAULT_STRONG_PEAKS = 25;
     /** Default number of strongest lines searched. */
-    public static final int DEFAULT_STRONG_LINES = 30;
+    public static final int DEFAULT_STRONG_LINES = 120;
     /** Default highest degree of the matcher's polynomial. */
     public static final int DEFAULT_MAX_DEGREE = 3;
     /** Default smallest share of the strongest peaks a solution must explain. */
@@ -141,7 +141,7 @@ public final class LampMatcher {
 
     /**
      * @return a matcher with no prior ({@link Prior#none()}), tolerance 3 pixels, the 25 strongest
-     *         peaks and 30 strongest lines, polynomials up to degree 3 and a minimum inlier
+     *         peaks and 120 strongest lines, polynomials up to degree 3 and a minimum inlier
      *         fraction of 0.5
      */
     public static LampMatcher defaults() {
@@ -284,15 +284,21 @@ public final class LampMatcher {
         if (bestCount < MIN_MATCHES) {
             throw new CalibrationException(CalibrationException.TOO_FEW_MATCHES, "the best pairing of " + n
                     + " peaks with " + lines.size() + " lamp lines matches " + bestCount + " of the "
-                    + inside.strong.length + " strongest peaks, within the prior (" + prior + ") or outside it; "
+                    + inside.strong.length + " strongest peaks, " + where() + "; "
                     + "a calibration needs at least " + MIN_MATCHES);
         }
         Candidate shown = free != null && (best == null || free.strongMatched > best.strongMatched) ? free : best;
         throw new CalibrationException(CalibrationException.LAMP_MISMATCH, String.format(Locale.ROOT,
                 "the lamp lines (%s) do not explain the spectrum: the best pairing matches %d of the %d strongest "
-                        + "peaks (%.0f%%), below the %.0f%% required, within the prior (%s) or outside it",
+                        + "peaks (%.0f%%), below the %.0f%% required, %s",
                 span(lines), shown.strongMatched, inside.strong.length,
-                100.0 * shown.strongMatched / inside.strong.length, 100 * minInlierFraction, prior));
+                100.0 * shown.strongMatched / inside.strong.length, 100 * minInlierFraction, where()));
+    }
+
+    /** Where the search looked, for messages. */
+    private String where() {
+        return prior.equals(Prior.none()) ? "searching every wavelength and dispersion"
+                : "within the prior (" + prior + ") or outside it";
     }
 
     private boolean acceptable(Candidate c, Search search) {

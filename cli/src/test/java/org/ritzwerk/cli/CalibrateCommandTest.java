@@ -1,0 +1,153 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.refdata.CalibrationFiles;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * {@code ritzwerk calibrate} end to end on lamp spectra that {@code synth} renders through a
+ * known dispersion polynomial, with noise and contaminating lines that are not in the lamp set.
+ */
+class CalibrateCommandTest {
+
+    /** The truth: pixel p sees 540 + 0.06 p - 2e-6 p^2 nm (standard air); an invented spectrometer. */
+    private static final double[] TRUTH = {540, 0.06, -2e-6};
+    private static final int PIXELS = 2048;
+
+    /** Invented contaminants (not neon lines), for the demo-style scene. */
+    private static final String CONTAMINANTS = """
+            # ritzwerk-lines 1
+            # id: invented-contaminants
+            # title: invented stray lines for a test
+            # source: invented for this test
+            # provenance: computed
+            # version: 1
+            # position-unit: nm
+            # medium: air
+            species,position,intensity
+            Fe I,561.3,150
+            Fe I,597.7,120
+            Fe I,629.95,90
+            """;
+
+    private static double truth(double pixel) {
+        return TRUTH[0] + TRUTH[1] * pixel + TRUTH[2] * pixel * pixel;
+    }
+
+    private static Path lampSpectrum(Path dir, long seed, boolean contaminated) throws IOException {
+        Path spectrum = dir.resolve("neon-" + seed + ".csv");
+        Path stray = dir.resolve("stray.csv");
+        Files.writeString(stray, CONTAMINANTS);
+        List<String> args = new java.util.ArrayList<>(List.of("synth", "--lines", "lamp-ne-i", "--dispersion",
+                "540,0.06,-2e-6", "--pixels", String.valueOf(PIXELS), "--medium", "air", "--temperature", "400",
+                "--resolving-power", "4000", "--read-noise", "4", "--seed", String.valueOf(seed), "--out",
+                spectrum.toString()));
+        if (contaminated) {
+            args.add("--lines");
+            args.add(stray.toString());
+        }
+        CliTest.Run run = CliTest.run(args.toArray(new String[0]));
+        assertEquals(0, run.code(), run.err());
+        return spectrum;
+    }
+
+    @Test
+    void recoversTheDispersionWithinAFiftiethOfAPixel(@TempDir Path dir) throws IOException {
+        Path spectrum = lampSpectrum(dir, 11, true);
+        Path calibration = dir.resolve("calibration.json");
+        Path png = dir.resolve("residuals.png");
+        CliTest.Run run = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--out",
+                calibration.toString(), "--plot", png.toString());
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("Solution: degree"), run.out());
+        DispersionSolution solution = CalibrationFiles.read(calibration).solution();
+        // Error against the truth over the whole detector, in pixels (local dispersion).
+        double sum = 0;
+        for (int p = 0; p < PIXELS; p++) {
+            double errorPixels = (solution.wavelengthAt(p) - truth(p)) / (TRUTH[1] + 2 * TRUTH[2] * p);
+            sum += errorPixels * errorPixels;
+        }
+        double rms = Math.sqrt(sum / PIXELS);
+        assertTrue(rms < 0.05, "RMS error " + rms + " pixel");
+        // The contaminants are not neon lines: none of them is among the fitted lines.
+        JsonNode root = JsonMapper.builder().build().readTree(Files.readString(calibration));
+        assertEquals("ritzwerk-calibration", root.get("format").asString());
+        for (JsonNode line : root.get("lines")) {
+            assertTrue(line.get("line").asString().startsWith("Ne I"), line.toString());
+        }
+        assertTrue(root.get("lines_used").asInt() >= 12, root.toString());
+        assertTrue(Files.size(png) > 1000);
+    }
+
+    @Test
+    void appliesASavedSolutionToAnotherSpectrum(@TempDir Path dir) throws IOException {
+        Path calibration = dir.resolve("calibration.json");
+        assertEquals(0, CliTest.run("calibrate", lampSpectrum(dir, 12, false).toString(), "--lamp", "Ne I",
+                "--out", calibration.toString()).code());
+        Path other = lampSpectrum(dir, 13, false);
+        CliTest.Run applied = CliTest.run("calibrate", other.toString(), "--apply", calibration.toString());
+        assertEquals(0, applied.code(), applied.err());
+        String[] lines = applied.out().split("\n");
+        assertTrue(lines[0].equals("# ritzwerk-spectrum 1"), lines[0]);
+        String[] pixel1000 = null;
+        for (String line : lines) {
+            if (line.startsWith("1000,")) {
+                pixel1000 = line.split(",");
+            }
+        }
+        assertEquals(truth(1000), Double.parseDouble(pixel1000[1]), 0.05 * 0.056);
+        assertTrue(Double.parseDouble(pixel1000[2]) > 0);
+        // A spectrum of another length is refused.
+        Path shortFile = dir.resolve("short.csv");
+        Files.writeString(shortFile, "counts\n1\n2\n3\n", StandardCharsets.UTF_8);
+        CliTest.Run refused = CliTest.run("calibrate", shortFile.toString(), "--apply", calibration.toString());
+        assertEquals(2, refused.code());
+        assertTrue(refused.err().contains("has 3 pixels but"), refused.err());
+    }
+
+    @Test
+    void failuresSayWhatWentWrong(@TempDir Path dir) throws IOException {
+        Path spectrum = lampSpectrum(dir, 14, false);
+        // The wrong lamp: argon lines for a neon spectrum.
+        CliTest.Run argon = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ar I");
+        assertEquals(2, argon.code());
+        assertTrue(argon.err().contains("calibrate:"), argon.err());
+        // A prior that excludes the truth.
+        CliTest.Run wrongRange = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I",
+                "--dispersion-range", "0.2,0.5");
+        assertEquals(2, wrongRange.code());
+        assertTrue(wrongRange.err().contains("no solution within the prior"), wrongRange.err());
+        // A dark frame: nothing to find.
+        Path dark = dir.resolve("dark.csv");
+        StringBuilder zeros = new StringBuilder("# ritzwerk-spectrum 1\ncounts\n");
+        java.util.SplittableRandom random = new java.util.SplittableRandom(5);
+        for (int p = 0; p < 512; p++) {
+            zeros.append(100 + random.nextGaussian() * 3).append('\n');
+        }
+        Files.writeString(dark, zeros);
+        CliTest.Run none = CliTest.run("calibrate", dark.toString(), "--lamp", "Ne I");
+        assertEquals(2, none.code());
+        assertTrue(none.err().toLowerCase().contains("peak"), none.err());
+        // An all-saturated frame.
+        Path flat = dir.resolve("flat.csv");
+        Files.writeString(flat, "counts\n65535\n65535\n65535\n65535\n65535\n65535\n65535\n65535\n65535\n");
+        CliTest.Run saturated = CliTest.run("calibrate", flat.toString(), "--lamp", "Ne I", "--saturation", "65535");
+        assertEquals(2, saturated.code());
+        assertTrue(saturated.err().contains("flat.csv"), saturated.err());
+        // No lamp at all.
+        assertTrue(CliTest.run("calibrate", spectrum.toString()).err().contains("give the lamp"));
+        assertTrue(CliTest.run("calibrate", spectrum.toString(), "--lamp", "Xe II").err()
+                .contains("no built-in lamp set for Xe II"));
+    }
+}
