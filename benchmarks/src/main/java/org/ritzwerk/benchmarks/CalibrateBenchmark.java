@@ -1,0 +1,150 @@
+package org.ritzwerk.benchmarks;
+
+import java.util.Arrays;
+import java.util.concurrent.TimeUnit;
+import org.openjdk.jmh.annotations.Benchmark;
+import org.openjdk.jmh.annotations.BenchmarkMode;
+import org.openjdk.jmh.annotations.Fork;
+import org.openjdk.jmh.annotations.Measurement;
+import org.openjdk.jmh.annotations.Mode;
+import org.openjdk.jmh.annotations.OutputTimeUnit;
+import org.openjdk.jmh.annotations.Scope;
+import org.openjdk.jmh.annotations.Setup;
+import org.openjdk.jmh.annotations.State;
+import org.openjdk.jmh.annotations.Warmup;
+import org.ritzwerk.engine.calibrate.DispersionFit;
+import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.engine.calibrate.LampLines;
+import org.ritzwerk.engine.calibrate.LampMatcher;
+import org.ritzwerk.engine.calibrate.PeakFinder;
+import org.ritzwerk.engine.calibrate.Peaks;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.LineRenderer;
+import org.ritzwerk.engine.synth.Noise;
+import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * Peak detection plus automatic calibration of a 4096-pixel neon lamp spectrum (an invented
+ * spectrometer: 350-900 nm, cubic dispersion, 0.4 nm resolution, Poisson and 5-count read noise,
+ * seed 7), beside a naive pairing search in the same run: every pair of detected peaks against
+ * every pair of lamp lines hypothesises a straight-line solution, each scored by counting the
+ * peaks that land within 3 pixels of a line (the brute-force form of what the matcher's local
+ * triplets do). Lines: Ne I in air with relative intensities, from the built-in set lamp-ne-i
+ * (Sansonetti and Martin 2005).
+ */
+@State(Scope.Benchmark)
+@BenchmarkMode(Mode.AverageTime)
+@OutputTimeUnit(TimeUnit.MILLISECONDS)
+@Warmup(iterations = 1, time = 2)
+@Measurement(iterations = 3, time = 2)
+@Fork(2)
+public class CalibrateBenchmark {
+
+    static final int PIXELS = 4096;
+    static final double[] NEON_NM = {
+        336.99072, 352.04711, 453.77545, 470.43949, 470.88594, 471.00650, 471.20633, 471.5344, 478.89258,
+        482.7338, 488.49170, 534.10938, 540.05618, 576.44188, 585.24879, 588.18952, 602.99969, 607.43377,
+        614.30626, 616.35939, 621.72812, 626.64950, 633.44278, 638.29917, 640.2248, 650.65281, 659.89529,
+        692.94673, 702.40504, 703.24131, 705.91074, 717.39381, 724.51666, 748.88712, 753.57741, 754.40443,
+        794.31814, 813.64054, 826.60772, 830.03258, 837.76080, 841.84274, 849.53598, 859.12584, 863.46470,
+        865.43831, 865.55220, 867.94925, 868.19211, 877.16563, 878.06226, 878.37533, 885.38668, 886.57552,
+        914.86716, 920.17591, 930.08527, 932.65068, 966.54197};
+    static final double[] NEON_INTENSITY = {
+        70, 100, 100, 150, 120, 100, 150, 150, 100, 100, 100, 100, 200, 70, 200, 100, 100, 100, 100, 100, 100, 100,
+        100, 100, 200, 150, 100, 1000, 300, 800, 100, 800, 800, 300, 300, 130, 80, 170, 70, 300, 800, 250, 700, 400,
+        350, 600, 80, 130, 150, 100, 600, 400, 300, 150, 120, 90, 80, 70, 180};
+
+    double[] counts;
+    LampLines lines;
+    /** The true dispersion c0 + c1 p + c2 p^2 + c3 p^3. */
+    double[] truth;
+
+    /** Renders the lamp spectrum. */
+    @Setup
+    public void setUp() {
+        double last = PIXELS - 1;
+        double c3 = 1.0e-10;
+        double c2 = (900 - 350 - 0.145 * last - c3 * last * last * last) / (last * last);
+        truth = new double[] {350, 0.145, c2, c3};
+        PixelGrid grid = PixelGrid.dispersion(truth, PIXELS);
+        double[] flux = new double[NEON_NM.length];
+        for (int i = 0; i < flux.length; i++) {
+            flux[i] = NEON_INTENSITY[i] * 40;
+        }
+        double[] expected = new double[PIXELS];
+        Arrays.fill(expected, 300);
+        new LineRenderer(grid, Instrument.ofFwhm(0.4), 12).render(NEON_NM, flux, new double[flux.length],
+                new double[flux.length], expected);
+        counts = new double[PIXELS];
+        Noise.apply(expected, 5, 7L, counts);
+        lines = LampLines.of(NEON_NM, NEON_INTENSITY, null, Medium.air());
+    }
+
+    /** @return the solution: peaks found, paired with no prior, cubic fitted with clipping */
+    @Benchmark
+    public DispersionSolution detectAndCalibrate() {
+        Peaks peaks = PeakFinder.defaults().find(counts);
+        return LampMatcher.defaults().match(peaks, lines).fit(DispersionFit.automatic(3));
+    }
+
+    /** @return the detected peaks alone */
+    @Benchmark
+    public Peaks detectOnly() {
+        return PeakFinder.defaults().find(counts);
+    }
+
+    /**
+     * @return the best straight-line hypothesis as {offset, slope, peaks explained}, from every
+     *         pair of the 25 strongest peaks against every pair of lines
+     */
+    @Benchmark
+    public double[] naivePairSearch() {
+        Peaks peaks = PeakFinder.defaults().find(counts);
+        return naivePairs(peaks.centres(), peaks.fluxes(), NEON_NM);
+    }
+
+    static double[] naivePairs(double[] centres, double[] fluxes, double[] nm) {
+        Integer[] byFlux = new Integer[centres.length];
+        for (int i = 0; i < byFlux.length; i++) {
+            byFlux[i] = i;
+        }
+        Arrays.sort(byFlux, (a, b) -> Double.compare(fluxes[b], fluxes[a]));
+        int n = Math.min(25, centres.length);
+        double[] strong = new double[n];
+        for (int i = 0; i < n; i++) {
+            strong[i] = centres[byFlux[i]];
+        }
+        double[] sorted = nm.clone();
+        Arrays.sort(sorted);
+        double[] best = {0, 0, -1};
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                if (strong[j] <= strong[i]) {
+                    continue;
+                }
+                for (int a = 0; a < sorted.length; a++) {
+                    for (int b = a + 1; b < sorted.length; b++) {
+                        double slope = (sorted[b] - sorted[a]) / (strong[j] - strong[i]);
+                        double offset = sorted[a] - slope * strong[i];
+                        int explained = 0;
+                        for (double p : strong) {
+                            double at = offset + slope * p;
+                            int k = Arrays.binarySearch(sorted, at);
+                            int hi = k >= 0 ? k : -k - 1;
+                            double near = Math.min(hi < sorted.length ? Math.abs(sorted[hi] - at) : Double.MAX_VALUE,
+                                    hi > 0 ? Math.abs(sorted[hi - 1] - at) : Double.MAX_VALUE);
+                            if (near <= 3 * Math.abs(slope)) {
+                                explained++;
+                            }
+                        }
+                        if (explained > best[2]) {
+                            best = new double[] {offset, slope, explained};
+                        }
+                    }
+                }
+            }
+        }
+        return best;
+    }
+}
