@@ -15,6 +15,7 @@ import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.calibrate.DispersionFit;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.engine.calibrate.IdentifierRefinement;
 import org.ritzwerk.engine.calibrate.LampLines;
 import org.ritzwerk.engine.calibrate.LampMatch;
 import org.ritzwerk.engine.calibrate.LampMatcher;
@@ -42,7 +43,8 @@ import picocli.CommandLine.Spec;
             "Find the pixel -> wavelength solution of a spectrometer from a lamp spectrum (counts per",
             "pixel, a ritzwerk-spectrum file): detect the peaks (baseline, noise, S/N threshold,",
             "Gaussian least-squares centroids with uncertainties), pair them with the lamp's lines",
-            "without a starting solution, fit a weighted polynomial with outlier clipping, and report",
+            "without a starting solution, refine the pairs with the line identifier (optimal one-to-one),",
+            "fit a weighted polynomial with outlier clipping, and report",
             "the lines used and rejected, the RMS and the wavelength uncertainty across the detector.",
             "--apply puts a saved solution's wavelengths on another spectrum."
         },
@@ -146,7 +148,10 @@ final class CalibrateCommand implements Callable<Integer> {
         LampMatch match = matcher.match(peaks, lampSet.lines);
         DispersionFit fit = degree.equals("auto") ? DispersionFit.automatic(maxDegree)
                 : DispersionFit.ofDegree(parseDegree());
-        DispersionSolution solution = match.fit(fit.withClipping(clip, DispersionFit.DEFAULT_CLIP_ITERATIONS));
+        fit = fit.withClipping(clip, DispersionFit.DEFAULT_CLIP_ITERATIONS);
+        // Refine through the line identifier: every peak against every line, assigned optimally.
+        match = IdentifierRefinement.refine(match, match.fit(fit), peaks, lampSet.lines, lampSet.species(), tolerance);
+        DispersionSolution solution = match.fit(fit);
         report(spectrum, peaks, match, solution, lampSet);
         if (out != null) {
             CalibrationFiles.write(out, solution, spectrum.pixels(), describe(spectrum, lampSet), lampSet.labelsOf(match));
@@ -204,7 +209,7 @@ final class CalibrateCommand implements Callable<Integer> {
     }
 
     /** The lamp lines of every --lamp species and --lines set, in the solution's medium. */
-    private record LampSet(LampLines lines, List<String> labels, List<String> sets) {
+    private record LampSet(LampLines lines, List<String> labels, List<String> sets, Species[] species) {
 
         List<String> labelsOf(LampMatch match) {
             List<String> result = new ArrayList<>();
@@ -237,6 +242,7 @@ final class CalibrateCommand implements Callable<Integer> {
         List<Double> intensity = new ArrayList<>();
         List<Double> sigma = new ArrayList<>();
         List<String> labels = new ArrayList<>();
+        List<Species> speciesOfLine = new ArrayList<>();
         boolean allSigmas = true;
         for (String set : sets) {
             Path path = Path.of(set);
@@ -257,6 +263,7 @@ final class CalibrateCommand implements Callable<Integer> {
                 double u = list.uncertainty(i).orElse(Double.NaN);
                 allSigmas &= !Double.isNaN(u);
                 sigma.add(Math.abs(converted[i] / positions[i]) * u);
+                speciesOfLine.add(list.species(i));
                 labels.add(list.species(i).notation() + " " + list.position(i) + " " + list.unit().symbol()
                         + (list.medium() == null ? "" : " " + list.medium().label()));
             }
@@ -264,7 +271,7 @@ final class CalibrateCommand implements Callable<Integer> {
         double[] w = nm.stream().mapToDouble(Double::doubleValue).toArray();
         double[] in = intensity.stream().mapToDouble(Double::doubleValue).toArray();
         double[] s = allSigmas ? sigma.stream().mapToDouble(Double::doubleValue).toArray() : null;
-        return new LampSet(LampLines.of(w, in, s, solutionMedium), labels, sets);
+        return new LampSet(LampLines.of(w, in, s, solutionMedium), labels, sets, speciesOfLine.toArray(new Species[0]));
     }
 
     private String describe(SpectrumFiles.Spectrum spectrum, LampSet lampSet) {

@@ -54,6 +54,36 @@ class CalibrationEndToEndTest {
     }
 
     @Test
+    void refinementThroughTheIdentifierKeepsOnlyTrueLampLines() {
+        // Eight contaminants and the unresolved Ne pairs: the identifier's one-to-one assignment
+        // must pair no contaminant and no line with the wrong peak, and the refit stays accurate.
+        LampScene scene = new LampScene(40, 7, 8);
+        Peaks peaks = PeakFinder.defaults().find(scene.exposure(2));
+        LampLines neon = LampLines.of(LampScene.NEON_NM, LampScene.NEON_INTENSITY, null, Medium.air());
+        LampMatch first = LampMatcher.defaults().withPrior(ROUGH).match(peaks, neon);
+        DispersionFit fit = DispersionFit.automatic(5);
+        org.ritzwerk.atom.Species[] species = new org.ritzwerk.atom.Species[neon.size()];
+        java.util.Arrays.fill(species, org.ritzwerk.atom.Species.parse("Ne I"));
+        LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, neon, species, 3);
+        assertTrue(refined.size() >= 40, "pairs " + refined.size());
+        for (int i = 0; i < refined.size(); i++) {
+            double truePixel = LampScene.truthPixelOf(refined.wavelength(i));
+            // A line with another lamp line within the 0.4 nm resolution is an unresolved blend
+            // whose centroid is pulled by up to about a pixel; clipping deals with those.
+            boolean blended = false;
+            for (double other : LampScene.NEON_NM) {
+                blended |= other != refined.wavelength(i) && Math.abs(other - refined.wavelength(i)) < 0.45;
+            }
+            assertTrue(Math.abs(refined.pixel(i) - truePixel) < (blended ? 1.5 : 0.5), "pair " + i + ": peak at "
+                    + refined.pixel(i) + " paired with " + refined.wavelength(i) + " nm, which lies at pixel " + truePixel);
+        }
+        assertTrue(rmsPixelsFromTruth(refined.fit(fit)) < 0.05);
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> IdentifierRefinement.refine(first, first.fit(fit), peaks, neon, new org.ritzwerk.atom.Species[2], 3));
+        assertTrue(e.getMessage().contains("but 2 species"), e.getMessage());
+    }
+
+    @Test
     void statedWavelengthUncertaintiesHoldOverManyExposures() {
         // 50 noise draws of one scene; at 10 pixels across the detector the fraction of
         // |error| / sigma below 2 should be near 0.954 for Gaussian errors with correct sigmas.

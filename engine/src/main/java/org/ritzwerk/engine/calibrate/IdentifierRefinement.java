@@ -1,0 +1,104 @@
+package org.ritzwerk.engine.calibrate;
+
+import java.util.Arrays;
+import java.util.Objects;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.Identifier;
+import org.ritzwerk.engine.identify.LineCatalog;
+import org.ritzwerk.engine.identify.PeakList;
+import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.quantity.Unit;
+
+/**
+ * The last step of an automatic calibration: with a first solution in hand, every detected peak
+ * becomes a wavelength (with the uncertainty of its centroid and of the solution), and the line
+ * identifier ({@link Identifier}) pairs all peaks with all lamp lines at once by an optimal
+ * one-to-one assignment, within a tolerance of a few pixels. Peaks it calls ambiguous (two lines
+ * not separable) are left out. The result is a new {@link LampMatch} to fit again.
+ *
+ * <p>Stateless and thread-safe.
+ */
+public final class IdentifierRefinement {
+
+    private IdentifierRefinement() {
+    }
+
+    /**
+     * @param match           the pairing the first solution came from (its strong-peak figures are kept)
+     * @param solution        the first solution, in the lines' medium
+     * @param peaks           every detected peak
+     * @param lines           the lamp's lines
+     * @param species         the species of each line, for the identifier
+     * @param tolerancePixels how far (pixels) a peak may lie from a line to pair, positive
+     * @return the refined pairing, sorted by pixel
+     * @throws CalibrationException when fewer than {@link LampMatcher#MIN_MATCHES} pairs remain
+     */
+    public static LampMatch refine(LampMatch match, DispersionSolution solution, Peaks peaks, LampLines lines,
+            Species[] species, double tolerancePixels) {
+        Objects.requireNonNull(species, "species");
+        if (species.length != lines.size()) {
+            throw new IllegalArgumentException(lines.size() + " lines but " + species.length + " species");
+        }
+        if (!(tolerancePixels > 0) || Double.isInfinite(tolerancePixels)) {
+            throw new IllegalArgumentException("tolerance must be a positive number of pixels, got " + tolerancePixels);
+        }
+        int n = peaks.size();
+        double[] nm = new double[n];
+        double[] nmSigma = new double[n];
+        double[] flux = new double[n];
+        double widest = 0;
+        for (int k = 0; k < n; k++) {
+            double c = peaks.centre(k);
+            double slope = solution.dispersionAt(c);
+            nm[k] = solution.wavelengthAt(c);
+            double fromSolution = solution.wavelengthSigmaAt(c);
+            nmSigma[k] = Math.hypot(slope * peaks.centreSigma(k), Double.isNaN(fromSolution) ? 0 : fromSolution);
+            flux[k] = Math.max(0, peaks.flux(k));
+            widest = Math.max(widest, Math.abs(slope));
+        }
+        PeakList peakList = PeakList.of(nm, nmSigma, flux, Unit.NANOMETRE, lines.medium());
+        LineCatalog.Builder catalog = LineCatalog.builder();
+        for (int j = 0; j < lines.size(); j++) {
+            double vacuum = lines.medium().toVacuum(lines.wavelength(j) * 1e-9);
+            double scale = vacuum / (lines.wavelength(j) * 1e-9);
+            catalog.add(species[j], vacuum, lines.sigma(j) * 1e-9 * scale, lines.intensity(j), Integer.toString(j));
+        }
+        LineCatalog built = catalog.build();
+        Identification id = Identifier.of(Tolerance.absolute(tolerancePixels * widest * 1e-9)).identify(peakList, built);
+        int[] peakIndex = new int[n];
+        int[] lineIndex = new int[n];
+        int m = 0;
+        for (int k = 0; k < n; k++) {
+            if (id.status(k) == Identification.MATCHED) {
+                peakIndex[m] = k;
+                lineIndex[m] = Integer.parseInt(built.label(id.line(k)));
+                m++;
+            }
+        }
+        if (m < LampMatcher.MIN_MATCHES) {
+            throw new CalibrationException(CalibrationException.TOO_FEW_MATCHES, "after refinement only " + m
+                    + " peaks pair with a lamp line without ambiguity; a calibration needs at least "
+                    + LampMatcher.MIN_MATCHES);
+        }
+        peakIndex = Arrays.copyOf(peakIndex, m);
+        lineIndex = Arrays.copyOf(lineIndex, m);
+        double[] pixel = new double[m];
+        double[] pixelSigma = new double[m];
+        double[] wavelength = new double[m];
+        double[] wavelengthSigma = new double[m];
+        double[] residual = new double[m];
+        for (int i = 0; i < m; i++) {
+            int k = peakIndex[i];
+            pixel[i] = peaks.centre(k);
+            pixelSigma[i] = peaks.centreSigma(k);
+            wavelength[i] = lines.wavelength(lineIndex[i]);
+            wavelengthSigma[i] = lines.sigma(lineIndex[i]);
+            residual[i] = pixel[i] - solution.pixelAt(wavelength[i]);
+        }
+        return new LampMatch(peakIndex, lineIndex, pixel, pixelSigma, wavelength, wavelengthSigma,
+                lines.sigmasGiven(), residual, match.strongPeaks(), match.strongMatched(), match.degree(),
+                match.hypotheses(), solution.wavelengthAt(0), solution.wavelengthAt(peaks.pixels() - 1),
+                lines.medium());
+    }
+}
