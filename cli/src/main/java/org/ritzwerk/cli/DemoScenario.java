@@ -1,0 +1,516 @@
+package org.ritzwerk.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.calibrate.DispersionFit;
+import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.engine.calibrate.IdentifierRefinement;
+import org.ritzwerk.engine.calibrate.LampLines;
+import org.ritzwerk.engine.calibrate.LampMatch;
+import org.ritzwerk.engine.calibrate.LampMatcher;
+import org.ritzwerk.engine.calibrate.PeakFinder;
+import org.ritzwerk.engine.calibrate.Peaks;
+import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.Identifier;
+import org.ritzwerk.engine.identify.LineCatalog;
+import org.ritzwerk.engine.identify.PeakList;
+import org.ritzwerk.engine.identify.ShiftSearch;
+import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.engine.plasma.BoltzmannPlot;
+import org.ritzwerk.engine.plasma.VoigtLineFit;
+import org.ritzwerk.engine.profile.BalmerStark;
+import org.ritzwerk.engine.profile.Broadening;
+import org.ritzwerk.engine.profile.Profiles;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.Noise;
+import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.CalibrationFiles;
+import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.NuclearData;
+
+/**
+ * The demo's invented scenario, run end to end with the library on data it generates itself
+ * from fixed seeds: the optics lab "Wrenfield Bench" calibrates its compact grating
+ * spectrometer with a neon lamp, measures a hydrogen-deuterium-helium discharge with it,
+ * identifies the lines (with the plasma's velocity and the H-D isotope shift), estimates the
+ * discharge's temperature and electron density, and plans the lasers and microwaves of a
+ * rubidium Rydberg sensor. Every number of the scenario (spectrometer, lamp exposure,
+ * discharge conditions) is invented; the physics and the neon lines are the library's.
+ */
+final class DemoScenario {
+
+    /** The spectrometer: pixel p sees 400 + 0.0700 p - 1.0e-6 p^2 nm in standard air (invented). */
+    static final double[] DISPERSION = {400, 0.0700, -1.0e-6};
+    /** Detector pixels. */
+    static final int PIXELS = 4096;
+    /** The spectrometer's Gaussian response, nm FWHM (invented). */
+    static final double RESPONSE_FWHM = 0.10;
+    /** The discharge's invented conditions. */
+    static final double DISCHARGE_TEMPERATURE = 9000;
+    static final double DISCHARGE_DENSITY = 3e20;
+    static final double DISCHARGE_VELOCITY = 6e3;
+    static final double CORE_TEMPERATURE = 60_000;
+    /** Deuterium atoms per hydrogen atom in the discharge (invented). */
+    static final double DEUTERIUM_RATIO = 0.5;
+
+    /** What the demo found, for its report and its tests. */
+    static final class Results {
+        double calibrationRmsPixels;
+        double calibrationWorstErrorPixels;
+        int calibrationLinesUsed;
+        double velocity;
+        double velocityUncertainty;
+        final List<String> identified = new ArrayList<>();
+        double isotopeShiftMeasured = Double.NaN;
+        double isotopeShiftPredicted = Double.NaN;
+        double temperature = Double.NaN;
+        double temperatureUncertainty = Double.NaN;
+        double density = Double.NaN;
+        double deuteriumRatio = Double.NaN;
+        final List<Path> files = new ArrayList<>();
+    }
+
+    private final Path folder;
+    private final PrintWriter out;
+    private final int threads;
+
+    DemoScenario(Path folder, PrintWriter out, int threads) {
+        this.folder = folder;
+        this.out = out;
+        this.threads = threads;
+    }
+
+    Results run() throws IOException {
+        Files.createDirectories(folder);
+        Results results = new Results();
+        PixelGrid detector = PixelGrid.dispersion(DISPERSION, PIXELS);
+        out.println("Ritzwerk demo: the Wrenfield Bench optics lab (an invented scenario; all data generated here)");
+        out.println();
+        DispersionSolution solution = calibrate(detector, results);
+        discharge(detector, solution, results);
+        out.println("Files written to " + folder.toAbsolutePath() + ":");
+        for (Path file : results.files) {
+            out.println("  " + file.getFileName());
+        }
+        out.flush();
+        return results;
+    }
+
+    // ---- 1. Calibration -------------------------------------------------------------------
+
+    private DispersionSolution calibrate(PixelGrid detector, Results results) throws IOException {
+        out.println("1. Wavelength calibration with a neon lamp");
+        out.println("   The lab's compact grating spectrometer (4096 pixels, about 400-670 nm) looks at a neon");
+        out.println("   pen-ray lamp. Ritzwerk finds the peaks, pairs them with the built-in Ne I lamp lines");
+        out.println("   without any starting guess, and fits the pixel -> wavelength polynomial.");
+        LineList neon = (LineList) DataRegistry.builtIn().load("lamp-ne-i");
+        double[] listed = new double[neon.size()];
+        double[] intensity = new double[neon.size()];
+        for (int i = 0; i < neon.size(); i++) {
+            listed[i] = neon.position(i);
+            intensity[i] = neon.intensity(i).orElse(0);
+        }
+        double[] vacuum = new double[neon.size()];
+        SpectralArrays.convert(listed, neon.unit(), neon.medium(), Unit.NANOMETRE, Medium.vacuum(), vacuum);
+        double neonMass = NuclearData.builtIn().nucleus(Species.parse("Ne I")).massKg()
+                + 10 * PhysicalConstants.ELECTRON_MASS.value();
+        double[] expected = Scene.builder(detector).medium(Medium.air()).temperature(350)
+                .lineList("Ne I", vacuum, intensity, neonMass).instrument(Instrument.ofFwhm(RESPONSE_FWHM))
+                .peakCounts(30_000).build().render(threads).expectedCounts();
+        for (int p = 0; p < PIXELS; p++) {
+            expected[p] += 120; // dark level and stray light (invented)
+        }
+        double[] counts = new double[PIXELS];
+        Noise.apply(expected, 6, 20261202L, counts);
+        Path lampFile = folder.resolve("neon-lamp.csv");
+        writeCounts(lampFile, counts, "neon pen-ray lamp on the Wrenfield Bench spectrometer (invented)");
+        results.files.add(lampFile);
+
+        Peaks peaks = PeakFinder.defaults().find(counts);
+        LampLines lines = LampLines.of(listed, intensity, null, Medium.air());
+        Species[] species = new Species[neon.size()];
+        for (int i = 0; i < species.length; i++) {
+            species[i] = neon.species(i);
+        }
+        LampMatch match = LampMatcher.defaults().match(peaks, lines);
+        DispersionFit fit = DispersionFit.automatic(3);
+        match = IdentifierRefinement.refine(match, match.fit(fit), peaks, lines, species, 3);
+        DispersionSolution solution = match.fit(fit);
+        double worst = 0;
+        for (int p = 0; p < PIXELS; p++) {
+            double truth = DISPERSION[0] + p * (DISPERSION[1] + p * DISPERSION[2]);
+            worst = Math.max(worst, Math.abs(solution.wavelengthAt(p) - truth) / solution.dispersionAt(p));
+        }
+        results.calibrationRmsPixels = solution.rmsPixels();
+        results.calibrationWorstErrorPixels = worst;
+        results.calibrationLinesUsed = solution.usedCount();
+        out.printf(Locale.ROOT, "   %d peaks found; %d paired with neon lines, %d used, %d rejected by clipping%n",
+                peaks.size(), solution.size(), solution.usedCount(), solution.rejectedCount());
+        out.printf(Locale.ROOT, "   polynomial degree %d; residual RMS %.4f nm = %.3f pixel%n", solution.degree(),
+                solution.rmsNm(), solution.rmsPixels());
+        out.printf(Locale.ROOT, "   wavelength at the detector's centre: %.4f nm +- %.4f nm (standard air)%n",
+                solution.wavelengthAt((PIXELS - 1) / 2.0), solution.wavelengthSigmaAt((PIXELS - 1) / 2.0));
+        out.printf(Locale.ROOT, "   against the invented truth: worst error over the detector %.3f pixel%n", worst);
+        Path calibration = folder.resolve("calibration.json");
+        List<String> labels = new ArrayList<>();
+        for (int i = 0; i < match.size(); i++) {
+            labels.add("Ne I " + listed[match.lineIndex(i)] + " nm air");
+        }
+        CalibrationFiles.write(calibration, solution, PIXELS, "demo: neon-lamp.csv, lamp-ne-i", labels);
+        results.files.add(calibration);
+        List<double[]> used = new ArrayList<>();
+        List<double[]> rejected = new ArrayList<>();
+        for (int i = 0; i < solution.size(); i++) {
+            double[] point = {solution.pixel(i), solution.residualNm(i) * 1e3, solution.sigmaNm(i) * 1e3};
+            (solution.isRejected(i) ? rejected : used).add(point);
+        }
+        Path residuals = folder.resolve("calibration-residuals.png");
+        Plots.residuals(residuals, String.format(Locale.ROOT, "Neon calibration residuals: degree %d, RMS %.3f pixel",
+                solution.degree(), solution.rmsPixels()), "pixel", "residual (pm, standard air)", used, rejected);
+        results.files.add(residuals);
+        out.println();
+        return solution;
+    }
+
+    // ---- 2. The discharge -----------------------------------------------------------------
+
+    private void discharge(PixelGrid detector, DispersionSolution solution, Results results) throws IOException {
+        out.println("2. A hydrogen-deuterium-helium discharge");
+        out.println("   The same spectrometer looks along a discharge tube filled with hydrogen, deuterium and a");
+        out.println("   little helium. Its cooler outer plasma shows the Balmer lines of H and D; its hot core");
+        out.println("   shows ionised helium. The peaks are put on the neon calibration, identified with a");
+        out.println("   velocity search, and used to estimate the plasma's temperature and electron density.");
+        List<Ions.Ion> ions = Ions.of(List.of("H I", "D I", "He II"), "qed");
+        Ions.Ion hydrogen = ions.get(0);
+        Ions.Ion deuterium = ions.get(1);
+        Ions.Ion helium = ions.get(2);
+        double[] outer = Scene.builder(detector).medium(Medium.air()).temperature(DISCHARGE_TEMPERATURE)
+                .electronDensity(DISCHARGE_DENSITY).velocity(DISCHARGE_VELOCITY).nMax(12)
+                .hydrogenLike(hydrogen.species(), hydrogen.model(), 1)
+                .hydrogenLike(deuterium.species(), deuterium.model(), DEUTERIUM_RATIO)
+                .instrument(Instrument.ofFwhm(RESPONSE_FWHM)).peakCounts(40_000).build().render(threads)
+                .expectedCounts();
+        double[] core = Scene.builder(detector).medium(Medium.air()).temperature(CORE_TEMPERATURE)
+                .velocity(DISCHARGE_VELOCITY).nMax(12).hydrogenLike(helium.species(), helium.model(), 1)
+                .instrument(Instrument.ofFwhm(RESPONSE_FWHM)).peakCounts(8_000).build().render(threads)
+                .expectedCounts();
+        double[] expected = new double[PIXELS];
+        for (int p = 0; p < PIXELS; p++) {
+            expected[p] = outer[p] + core[p] + 150;
+        }
+        double[] counts = new double[PIXELS];
+        Noise.apply(expected, 6, 4242L, counts);
+        Path dischargeFile = folder.resolve("discharge.csv");
+        writeCounts(dischargeFile, counts, "H-D-He discharge on the Wrenfield Bench spectrometer (invented)");
+        results.files.add(dischargeFile);
+
+        // Peaks to wavelengths through the calibration.
+        Peaks peaks = PeakFinder.defaults().withThreshold(8).find(counts);
+        int n = peaks.size();
+        double[] nm = new double[n];
+        double[] nmSigma = new double[n];
+        double[] flux = new double[n];
+        for (int k = 0; k < n; k++) {
+            double c = peaks.centre(k);
+            nm[k] = solution.wavelengthAt(c);
+            nmSigma[k] = Math.hypot(solution.dispersionAt(c) * peaks.centreSigma(k), solution.wavelengthSigmaAt(c));
+            flux[k] = Math.max(peaks.flux(k), 1e-9);
+        }
+        PeakList peakList = PeakList.of(nm, nmSigma, flux, Unit.NANOMETRE, Medium.air());
+        // First pass: every line of H I, D I and He II on its own, with a velocity search.
+        LineCatalog catalog = catalog(ions, 0, 0, java.util.Set.of());
+        Identifier identifier = Identifier.of(Tolerance.absolute(0.03e-9));
+        ShiftSearch.Fit velocity = ShiftSearch.redshift(identifier, peakList, catalog, 100e3);
+        Identification id = identifier.identify(peakList, catalog.shifted(velocity.value()));
+        results.velocity = velocity.velocity();
+        results.velocityUncertainty = velocity.velocityUncertainty();
+        out.printf(Locale.ROOT, "   %d peaks above S/N 8; line-of-sight velocity %.2f +- %.2f km/s (invented truth %.1f)%n",
+                n, velocity.velocity() / 1e3, velocity.velocityUncertainty() / 1e3, DISCHARGE_VELOCITY / 1e3);
+        int hAlpha = find(id, catalog, "H I Balmer alpha");
+        int dAlpha = find(id, catalog, "D I Balmer alpha");
+        double ratio = 0;
+        double resolution = 0;
+        if (hAlpha >= 0 && dAlpha >= 0) {
+            // Balmer-alpha resolves H from D: the pair gives the D/H ratio and the isotope shift.
+            ratio = peaks.flux(dAlpha) / peaks.flux(hAlpha);
+            resolution = peaks.fwhm(hAlpha) * Math.abs(solution.dispersionAt(peaks.centre(hAlpha)));
+            double predictedH = Medium.air().fromVacuum(PhysicalConstants.C / alphaFrequency(hydrogen.model())) * 1e9;
+            double predictedD = Medium.air().fromVacuum(PhysicalConstants.C / alphaFrequency(deuterium.model())) * 1e9;
+            results.isotopeShiftPredicted = predictedH - predictedD;
+            results.isotopeShiftMeasured = nm[hAlpha] - nm[dAlpha];
+            results.deuteriumRatio = ratio;
+            out.printf(Locale.ROOT, "   Balmer-alpha of H and D resolved: isotope shift measured %.4f nm, predicted %.4f nm;%n",
+                    results.isotopeShiftMeasured, results.isotopeShiftPredicted);
+            out.printf(Locale.ROOT, "   D/H from their fluxes %.2f (invented truth %.2f).%n", ratio, DEUTERIUM_RATIO);
+            // Second pass: the higher Balmer lines of H and D lie closer than the lines' width;
+            // each pair is one peak at the flux-weighted mean of the two.
+            catalog = catalog(ions, ratio, 1.5 * resolution, java.util.Set.of(3));
+            id = identifier.identify(peakList, catalog.shifted(velocity.value()));
+            out.println("   Higher Balmer lines of H and D are closer than the lines' width; they are identified as");
+            out.println("   unresolved pairs at the flux-weighted mean position.");
+        } else {
+            out.println("   Balmer-alpha of H and D not resolved: no isotope shift.");
+        }
+        out.println();
+        out.printf(Locale.ROOT, "   %12s %10s  %-32s %10s%n", "peak nm air", "+- nm", "identified as", "resid pm");
+        List<double[]> balmer = new ArrayList<>();
+        for (int k = 0; k < n; k++) {
+            String what;
+            String residual = "";
+            if (id.status(k) == Identification.UNEXPLAINED) {
+                what = "(unexplained)";
+            } else {
+                int j = id.line(k);
+                what = catalog.label(j) + (id.status(k) == Identification.AMBIGUOUS ? " ?" : "");
+                residual = String.format(Locale.ROOT, "%10.2f", id.residual(k) * 1e12);
+                if (id.status(k) == Identification.MATCHED) {
+                    results.identified.add(catalog.label(j));
+                    if (catalog.label(j).startsWith("H I") && catalog.label(j).contains("Balmer")) {
+                        // {peak, upper n, D/H ratio to add when H alone was resolved}
+                        balmer.add(new double[] {k, upperN(catalog.label(j)),
+                            catalog.label(j).startsWith("H I+D I") ? 0 : ratio});
+                    }
+                }
+            }
+            out.printf(Locale.ROOT, "   %12.4f %10.4f  %-32s %s%n", nm[k], nmSigma[k], what, residual);
+        }
+        out.println();
+        plasma(counts, solution, balmer, nm, ions, ratio, results);
+
+        Path plotFile = folder.resolve("discharge.png");
+        double[] x = new double[PIXELS];
+        for (int p = 0; p < PIXELS; p++) {
+            x[p] = solution.wavelengthAt(p);
+        }
+        List<Plots.Label> labels = new ArrayList<>();
+        for (int k = 0; k < n; k++) {
+            if (id.status(k) == Identification.MATCHED) {
+                double at = nm[k];
+                String text = catalog.label(id.line(k));
+                int near = -1;
+                for (int l = 0; l < labels.size(); l++) {
+                    near = Math.abs(labels.get(l).x() - at) < 2.5 ? l : near;
+                }
+                if (near < 0) {
+                    labels.add(new Plots.Label(at, text));
+                } else {
+                    Plots.Label old = labels.get(near);
+                    labels.set(near, new Plots.Label(Math.max(old.x(), at), old.text() + " / " + text));
+                }
+            }
+        }
+        Plots.lineChart(plotFile, "H-D-He discharge, Wrenfield Bench (invented): identified lines",
+                "wavelength (nm, standard air, from the neon calibration)", "counts per pixel", x, counts, labels);
+        results.files.add(plotFile);
+        out.println();
+    }
+
+    /**
+     * Temperature and density from the Balmer lines: each line fitted as a Voigt profile whose
+     * Gaussian part is the spectrometer's response and the Doppler width, with its unresolved D
+     * companion (known offset, D/H ratio from Balmer-alpha) riding along; the fluxes make a
+     * Boltzmann plot, the Lorentzian width of H-beta gives the electron density through the
+     * Stark fit of Gigosos et al. 2003.
+     */
+    private void plasma(double[] counts, DispersionSolution solution, List<double[]> balmer, double[] nm,
+            List<Ions.Ion> ions, double ratio, Results results) {
+        HydrogenLikeModel hydrogen = ions.get(0).model();
+        HydrogenLikeModel deuterium = ions.get(1).model();
+        double mass = hydrogen.nucleus().massKg() + PhysicalConstants.ELECTRON_MASS.value();
+        int m = balmer.size();
+        double[] intensity = new double[m];
+        double[] sigma = new double[m];
+        double[] energy = new double[m];
+        double[] weight = new double[m];
+        double[] a = new double[m];
+        double betaWidth = Double.NaN;
+        double betaWidthSigma = Double.NaN;
+        for (int i = 0; i < m; i++) {
+            int k = (int) balmer.get(i)[0];
+            int upper = (int) balmer.get(i)[1];
+            boolean pair = balmer.get(i)[2] == 0 && ratio > 0;
+            BalmerLine hLine = balmerLine(hydrogen, upper);
+            double offset = (PhysicalConstants.C / balmerLine(deuterium, upper).frequency()
+                    - PhysicalConstants.C / hLine.frequency()) * 1e9;
+            // The H line's centre: the peak itself, or for an unresolved pair the flux-weighted mean
+            // moved to the H line.
+            double centre = pair ? nm[k] - ratio * offset / (1 + ratio) : nm[k];
+            // The Doppler part at 10 000 K (it is small beside the response; common practice).
+            double hertz = hLine.frequency();
+            double doppler = Broadening.dopplerFwhm(hertz, 10_000, mass) / hertz * centre;
+            double gaussian = Math.hypot(RESPONSE_FWHM, doppler);
+            List<double[]> window = new ArrayList<>();
+            for (int p = 0; p < PIXELS; p++) {
+                double at = solution.wavelengthAt(p);
+                if (Math.abs(at - centre) < 1.2) {
+                    window.add(new double[] {at, counts[p], Math.sqrt(Math.max(counts[p], 1) + 36)});
+                }
+            }
+            double[] x = window.stream().mapToDouble(v -> v[0]).toArray();
+            double[] y = window.stream().mapToDouble(v -> v[1]).toArray();
+            double[] sy = window.stream().mapToDouble(v -> v[2]).toArray();
+            VoigtLineFit.Result fit = ratio > 0
+                    ? VoigtLineFit.fit(x, y, sy, gaussian, new double[] {offset}, new double[] {ratio}, centre)
+                    : VoigtLineFit.fit(x, y, sy, gaussian, new double[0], new double[0], centre);
+            intensity[i] = fit.flux();
+            sigma[i] = fit.fluxSigma();
+            weight[i] = hLine.upperWeight();
+            a[i] = hLine.einsteinA();
+            energy[i] = hydrogen.energy(upper, 0, 1) - hydrogen.energy(1, 0, 1);
+            if (upper == 4) {
+                betaWidth = fit.lorentzFwhm();
+                betaWidthSigma = fit.lorentzFwhmSigma();
+            }
+        }
+        if (m >= 3) {
+            BoltzmannPlot.Fit fit = BoltzmannPlot.fit(BoltzmannPlot.Counting.PHOTONS, intensity, sigma, energy, weight,
+                    a, null);
+            results.temperature = fit.temperature();
+            results.temperatureUncertainty = fit.temperatureUncertainty();
+            out.printf(Locale.ROOT, "   Excitation temperature, Boltzmann plot of %d Balmer lines (Voigt-fitted fluxes): "
+                    + "%.0f +- %.0f K%n   (invented truth %.0f K)%n", m, fit.temperature(), fit.temperatureUncertainty(),
+                    DISCHARGE_TEMPERATURE);
+        } else {
+            out.println("   Too few Balmer lines for a Boltzmann plot.");
+        }
+        if (Double.isNaN(betaWidth)) {
+            out.println("   H-beta was not identified: no density estimate.");
+            return;
+        }
+        try {
+            results.density = BalmerStark.electronDensity(BalmerStark.Line.BETA, betaWidth);
+            double u = BalmerStark.electronDensityUncertainty(BalmerStark.Line.BETA, betaWidth, betaWidthSigma);
+            out.printf(Locale.ROOT, "   Electron density from the H-beta Stark width %.4f +- %.4f nm (Voigt fit with the"
+                    + " D line):%n   %.2e +- %.1e m^-3 (invented truth %.1e)%n", betaWidth, betaWidthSigma,
+                    results.density, u, DISCHARGE_DENSITY);
+        } catch (IllegalArgumentException e) {
+            out.println("   H-beta Stark width " + betaWidth + " nm: " + e.getMessage());
+        }
+    }
+
+    /** One Balmer multiplet: frequency in Hz, upper weight, Einstein A in s^-1. */
+    private record BalmerLine(double frequency, double upperWeight, double einsteinA) {
+    }
+
+    private static BalmerLine balmerLine(HydrogenLikeModel model, int upper) {
+        LineTable table = HydrogenLikeLines.of(model).multiplets(upper, PhysicalConstants.C / 700e-9,
+                PhysicalConstants.C / 380e-9);
+        for (int t = 0; t < table.size(); t++) {
+            if (table.upperN(t) == upper && table.lowerN(t) == 2) {
+                return new BalmerLine(table.frequency(t), table.upperWeight(t), table.einsteinA(t));
+            }
+        }
+        throw new IllegalStateException("no Balmer line from n = " + upper);
+    }
+
+    /**
+     * The line catalog of the discharge: every multiplet of the ions between 395 and 680 nm;
+     * with a D/H ratio, H and D lines closer than {@code blendWithin} nm (and not among the
+     * upper levels seen resolved) become one entry at their flux-weighted mean, labelled
+     * "H I+D I ...".
+     */
+    private static LineCatalog catalog(List<Ions.Ion> ions, double ratio, double blendWithin,
+            java.util.Set<Integer> resolvedUpper) {
+        LineCatalog.Builder builder = LineCatalog.builder();
+        LineTable hydrogen = null;
+        LineTable deuterium = null;
+        for (Ions.Ion ion : ions) {
+            LineTable table = HydrogenLikeLines.of(ion.model()).multiplets(12, PhysicalConstants.C / 680e-9,
+                    PhysicalConstants.C / 395e-9);
+            String notation = ion.species().notation();
+            if (notation.equals("H I")) {
+                hydrogen = table;
+            } else if (notation.equals("D I")) {
+                deuterium = table;
+            }
+            for (int i = 0; i < table.size(); i++) {
+                boolean paired = ratio > 0 && (notation.equals("H I") || notation.equals("D I"));
+                if (!paired) {
+                    builder.add(ion.species(), PhysicalConstants.C / table.frequency(i), 0,
+                            table.upperWeight(i) * table.einsteinA(i), notation + " " + table.seriesName(i));
+                }
+            }
+        }
+        if (ratio > 0) {
+            Species h = ions.get(0).species();
+            Species d = ions.get(1).species();
+            for (int i = 0; i < hydrogen.size(); i++) {
+                int j = sameTransition(deuterium, hydrogen.upperN(i), hydrogen.lowerN(i));
+                double strength = hydrogen.upperWeight(i) * hydrogen.einsteinA(i);
+                double lh = PhysicalConstants.C / hydrogen.frequency(i);
+                double ld = j < 0 ? Double.NaN : PhysicalConstants.C / deuterium.frequency(j);
+                if (j >= 0 && Math.abs(lh - ld) * 1e9 < blendWithin && !resolvedUpper.contains(hydrogen.upperN(i))) {
+                    builder.add(h, (lh + ratio * ld) / (1 + ratio), 0, strength,
+                            "H I+D I " + hydrogen.seriesName(i));
+                } else {
+                    builder.add(h, lh, 0, strength, "H I " + hydrogen.seriesName(i));
+                    if (j >= 0) {
+                        builder.add(d, ld, 0, strength * ratio, "D I " + deuterium.seriesName(j));
+                    }
+                }
+            }
+        }
+        return builder.build();
+    }
+
+    private static int sameTransition(LineTable table, int upperN, int lowerN) {
+        for (int i = 0; i < table.size(); i++) {
+            if (table.upperN(i) == upperN && table.lowerN(i) == lowerN) {
+                return i;
+            }
+        }
+        return -1;
+    }
+
+    private static int find(Identification id, LineCatalog catalog, String label) {
+        for (int k = 0; k < id.peaks().size(); k++) {
+            if (id.status(k) == Identification.MATCHED && catalog.label(id.line(k)).equals(label)) {
+                return k;
+            }
+        }
+        return -1;
+    }
+
+    private static int upperN(String label) {
+        String[] greek = {"alpha", "beta", "gamma", "delta", "epsilon"};
+        for (int g = 0; g < greek.length; g++) {
+            if (label.endsWith(greek[g])) {
+                return g + 3;
+            }
+        }
+        // "H I Balmer 9-2"
+        String tail = label.substring(label.lastIndexOf(' ') + 1);
+        return Integer.parseInt(tail.substring(0, tail.indexOf('-')));
+    }
+
+    private static double alphaFrequency(HydrogenLikeModel model) {
+        LineTable table = HydrogenLikeLines.of(model).multiplets(3, PhysicalConstants.C / 700e-9,
+                PhysicalConstants.C / 600e-9);
+        return table.frequency(0);
+    }
+
+    private static void writeCounts(Path file, double[] counts, String what) throws IOException {
+        StringBuilder text = new StringBuilder("# ritzwerk-spectrum 1\n# source: ").append(what).append('\n');
+        text.append("pixel,counts\n");
+        for (int p = 0; p < counts.length; p++) {
+            text.append(p).append(',').append(String.format(Locale.ROOT, "%.6g", counts[p])).append('\n');
+        }
+        Files.writeString(file, text, StandardCharsets.UTF_8);
+    }
+}
