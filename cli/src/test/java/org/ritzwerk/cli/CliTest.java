@@ -139,15 +139,6 @@ class CliTest {
     }
 
     @Test
-    void demoRunsAndShowsItsInventedScenario() {
-        Run demo = run("demo");
-        assertEquals(0, demo.code(), demo.err());
-        assertTrue(demo.out().contains("an invented scenario"), demo.out());
-        assertEquals(5, demo.out().lines().filter(line -> line.matches("\\d+\\.\\d+\\(\\d+\\) .*")).count(),
-                demo.out());
-    }
-
-    @Test
     void debugAddsTheStackTraceAndOnlyThen() {
         Run plain = run("convert", "656.28 furlongs", "--to", "nm vacuum");
         assertEquals(2, plain.code());

@@ -1,0 +1,59 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * The demo end to end: its report holds the expected identifications and its estimates come
+ * back near the invented truth it was generated from.
+ */
+class DemoTest {
+
+    @Test
+    void theScenarioFindsWhatWasPutIn(@TempDir Path dir) throws IOException {
+        StringWriter text = new StringWriter();
+        DemoScenario.Results r = new DemoScenario(dir.resolve("out"), new PrintWriter(text), 2).run();
+        String report = text.toString();
+        assertTrue(report.contains("an invented scenario"), report);
+        // Calibration: within a tenth of a pixel of the invented dispersion everywhere.
+        assertTrue(r.calibrationWorstErrorPixels < 0.1, report);
+        assertTrue(r.calibrationLinesUsed >= 15, report);
+        // Identification: Balmer lines of H and D, He II lines of the core.
+        for (String line : new String[] {"H I Balmer alpha", "D I Balmer alpha", "H I+D I Balmer beta",
+            "H I+D I Balmer gamma", "He II Paschen alpha"}) {
+            assertTrue(r.identified.contains(line), line + " in " + r.identified);
+        }
+        // Velocity within 3 of its standard uncertainties of the invented 6 km/s.
+        assertEquals(DemoScenario.DISCHARGE_VELOCITY, r.velocity, 3 * r.velocityUncertainty, report);
+        // The isotope shift of Balmer-alpha within 0.01 nm of the model's 0.1785 nm.
+        assertEquals(r.isotopeShiftPredicted, r.isotopeShiftMeasured, 0.01, report);
+        assertEquals(DemoScenario.DEUTERIUM_RATIO, r.deuteriumRatio, 0.1, report);
+        // Temperature within 10 %, density within 30 % (He II lines of the core sit under
+        // H-beta, H-gamma and H-delta and bias both a little).
+        assertEquals(DemoScenario.DISCHARGE_TEMPERATURE, r.temperature, 0.1 * DemoScenario.DISCHARGE_TEMPERATURE, report);
+        assertEquals(DemoScenario.DISCHARGE_DENSITY, r.density, 0.3 * DemoScenario.DISCHARGE_DENSITY, report);
+        for (String name : new String[] {"neon-lamp.csv", "calibration.json", "calibration-residuals.png",
+            "discharge.csv", "discharge.png"}) {
+            assertTrue(Files.size(dir.resolve("out").resolve(name)) > 100, name);
+        }
+        // The files it writes are inputs the commands take: calibrate the lamp file again.
+        CliTest.Run again = CliTest.run("calibrate", dir.resolve("out").resolve("neon-lamp.csv").toString(),
+                "--lamp", "Ne I");
+        assertEquals(0, again.code(), again.err());
+    }
+
+    @Test
+    void theCommandNamesItsFolder(@TempDir Path dir) {
+        CliTest.Run run = CliTest.run("demo", "--out-dir", dir.resolve("wrenfield").toString());
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("Files written to " + dir.resolve("wrenfield").toAbsolutePath()), run.out());
+    }
+}
