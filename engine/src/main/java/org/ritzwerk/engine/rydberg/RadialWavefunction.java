@@ -19,8 +19,10 @@ import java.util.Objects;
  * whose solutions oscillate with a period in x that does not depend on n, so one step h serves
  * every state. Numerov's three-term recursion (B. Numerov 1924; error O(h^6) per step)
  * {@code (1 - h^2 g_{k-1}/12) X_{k-1} = 2 (1 + 5 h^2 g_k/12) X_k - (1 - h^2 g_{k+1}/12) X_{k+1}}
- * runs inward from {@code r_max = 2 n* (n* + 15)}, where the bound solution has decayed by about
- * e^-30, starting from a WKB-decaying pair. It stops at the core radius
+ * runs inward from {@code r_max = 2 n*^2 + 20 n*^(4/3) + 20}, beyond the outer turning point
+ * {@code 2 n*^2} by the distance over which the bound solution decays by about e^-35 (the
+ * Airy-function tail of a linear potential slope {@code 1/r_t^2}), starting from a WKB-decaying
+ * pair. It stops at the core radius
  * {@code alpha_d^(1/3)} (when the core polarizability is known), or, for l &gt; 0, inside the
  * inner classical turning point as soon as |X| starts to grow again (the irregular solution
  * taking over, as it must at a non-integer n*). The function is normalised by
@@ -69,7 +71,9 @@ public final class RadialWavefunction {
                     + effectiveN + " for " + state);
         }
         int l = state.l();
-        double rMax = 2 * effectiveN * (effectiveN + 15);
+        // outer turning point 2 n*^2 plus the distance over which the Airy-like tail decays by about
+        // e^-35: (2/3) d^(3/2) sqrt(2) / r_t = 35 gives d = (37 r_t)^(2/3) ~ 17.7 n*^(4/3)
+        double rMax = 2 * effectiveN * effectiveN + 20 * Math.pow(effectiveN, 4.0 / 3) + 20;
         int last = (int) Math.ceil(Math.sqrt(rMax) / step);
         int innermost = Math.max(1, (int) Math.floor(Math.sqrt(innerRadius) / step));
         double centrifugal = (2 * l + 0.5) * (2 * l + 1.5);
