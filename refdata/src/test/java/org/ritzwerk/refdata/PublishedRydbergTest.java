@@ -64,6 +64,16 @@ class PublishedRydbergTest {
     }
 
     @Test
+    void microwaveTransitionBetweenRydbergStates() {
+        // Rb-85 67S1/2 -> 66P3/2 resonant with a microwave cavity at 13.053 GHz (L. Marcassa's talk
+        // abstract on Kondo et al., arXiv:2407.16819 (2024), read in fherreralab/mqt-workshop-2024
+        // _talks/luismarcassa.md). A cavity frequency quoted to 1 MHz in an abstract, not a line-centre
+        // measurement, so only a loose check: the Li et al. 2003 defects give 13.0492 GHz, within 5 MHz.
+        AlkaliAtom rb = atom("Rb-85 I");
+        assertEquals(13.053e9, rb.frequencyHz(State.of(66, 1, 3), State.of(67, 0, 1)), 5e6);
+    }
+
+    @Test
     void ionisationLimits() {
         // Mack et al., Phys. Rev. A 83, 052515 (2011): 1 010 029.1646(3) GHz = 33 690.946 44 cm-1 from
         // 5S1/2 F = 1, which lies 5/8 of 6 834.682 610 904 MHz (Steck, from memory) below the centroid
