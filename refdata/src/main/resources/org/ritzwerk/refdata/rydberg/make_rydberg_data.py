@@ -128,11 +128,12 @@ LI_SERIES = [
 
 # Ionisation limits above the ground level's fine-structure (hyperfine-centroid) energy, cm^-1.
 # Rb-87: Mack et al. 2011 give 1 010 029.1646(3) GHz from 5S1/2 F = 1 (read in ryd-numerov
-# 0.5.5 elements/rubidium.py and in ARC); F = 1 lies 5/8 of the ground hyperfine splitting
-# 6 834.682 610 904 MHz below the centroid (Steck, Rubidium 87 D Line Data; the same 4.2717 GHz
-# shift is applied in ARC), so the limit above the centroid is 1 010 029.1646 - 4.2716766 GHz.
+# 0.5.5 elements/rubidium.py and in ARC); F = 1 lies 5/8 of the ground hyperfine splitting below
+# the centroid, 4.271676631815181 GHz as ARC subtracts it (read there; 5/8 of 6 834.682 610 904 MHz,
+# Steck, Rubidium 87 D Line Data, from memory, gives the same), so the limit above the centroid is
+# 1 010 029.1646 - 4.2716766 GHz.
 RB87_LIMIT_GHZ_FROM_F1 = 1010029.1646
-RB87_F1_BELOW_CENTROID_GHZ = 5.0 / 8.0 * 6.834682610904
+RB87_F1_BELOW_CENTROID_GHZ = 4.271676631815181
 LIMITS = {
     "li-7": (43487.15, "published", LN_1983 + ", read in " + ARC + " (Lithium6; the Lithium7 class quotes the "
              "same 5.391719 eV from R. L. Kelly, J. Phys. Chem. Ref. Data 16, Suppl. 1 (1987))"),
@@ -143,8 +144,8 @@ LIMITS = {
               "code's table of Rb-85 ionisation frequencies (c*33690.79890; repository not shown)"),
     "rb-87": ((RB87_LIMIT_GHZ_FROM_F1 - RB87_F1_BELOW_CENTROID_GHZ) / (C / 1e7), "published",
               MACK_2011 + ": 1010029.1646(3) GHz from 5S1/2 F=1, read in ryd-numerov 0.5.5 elements/rubidium.py "
-              "and " + ARC + "; minus 5/8 of the 6834.682610904 MHz ground hyperfine splitting (D. A. Steck, "
-              "Rubidium 87 D Line Data, from memory) to refer it to the hyperfine centroid"),
+              "and " + ARC + "; minus 4.271676631815181 GHz (5/8 of the ground hyperfine splitting, as ARC "
+              "subtracts it) to refer it to the hyperfine centroid"),
     "cs-133": (31406.4677325, "published", DEIGLMAYR_2016 + ", read in " + ARC + " (Caesium) and " + PAIR
                + "; the 2025 erratum (Phys. Rev. A 112, 049902) gives 31406.4677482, read in the rydstate "
                "package's sqdt cesium file, 1.6e-5 cm-1 higher, not applied"),
