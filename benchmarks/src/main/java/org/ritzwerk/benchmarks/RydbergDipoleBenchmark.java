@@ -128,11 +128,7 @@ public class RydbergDipoleBenchmark {
         for (int k = stop; k <= last; k++) {
             sum += y[k] * y[k];
         }
-        int peak = stop;
-        while (peak < last && Math.abs(y[peak + 1]) >= Math.abs(y[peak])) {
-            peak++;
-        }
-        double norm = Math.sqrt(sum * dr) * (y[peak] < 0 ? -1 : 1);
+        double norm = Math.sqrt(sum * dr); // positive at large r, as in the engine
         for (int k = stop; k <= last; k++) {
             y[k] /= norm;
         }

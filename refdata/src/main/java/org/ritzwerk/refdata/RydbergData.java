@@ -1,6 +1,9 @@
 package org.ritzwerk.refdata;
 
+import java.io.BufferedReader;
 import java.io.IOException;
+import java.io.InputStreamReader;
+import java.nio.charset.StandardCharsets;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
@@ -11,12 +14,14 @@ import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Collectors;
+import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.MeasuredLevel;
+import org.ritzwerk.engine.rydberg.ModelPotential;
 import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.quantity.Unit;
 
@@ -25,7 +30,8 @@ import org.ritzwerk.quantity.Unit;
  * quantum-defect set ({@code quantum-defects-rb-87}, format {@link QuantumDefectFiles}) and the
  * measured levels below its validity ({@code levels-rb-87}, format {@link LevelListFiles}), both
  * under {@code rydberg/} with the script {@code make_rydberg_data.py} that wrote them and
- * {@code fit-residuals.txt}, the comparison that chose each series' valid-from-n. The file
+ * {@code fit-residuals.txt}, the comparison that chose each series' valid-from-n; and the
+ * Marinescu et al. (1994) model potentials ({@code model-potentials.csv}). The file
  * headers name the paper of every series, the public copy each number was read in, and which
  * values are from memory (the Rb-85 ionisation limit).
  *
@@ -47,9 +53,11 @@ public final class RydbergData {
     }
 
     private final Map<Species, Entry> entries;
+    private final Map<Integer, ModelPotential> potentials;
 
-    private RydbergData(Map<Species, Entry> entries) {
+    private RydbergData(Map<Species, Entry> entries, Map<Integer, ModelPotential> potentials) {
         this.entries = entries;
+        this.potentials = potentials;
     }
 
     /** @return the built-in data, read on first use (thread-safe) */
@@ -90,7 +98,56 @@ public final class RydbergData {
             measuredLevels(levels); // checks every label now
             entries.put(content.defects().species(), new Entry(content, levels));
         }
-        return new RydbergData(Collections.unmodifiableMap(entries));
+        return new RydbergData(Collections.unmodifiableMap(entries), readPotentials());
+    }
+
+    /** Reads {@code rydberg/model-potentials.csv}: element,l,alpha_c,z,a1,a2,a3,a4,rc with l = 0, 1, 2, ... in order. */
+    private static Map<Integer, ModelPotential> readPotentials() {
+        String resource = "rydberg/model-potentials.csv";
+        Map<Integer, List<ModelPotential.Parameters>> sets = new LinkedHashMap<>();
+        Map<Integer, double[]> heads = new LinkedHashMap<>();
+        String source = null;
+        try (BufferedReader reader = new BufferedReader(new InputStreamReader(open(resource), StandardCharsets.UTF_8))) {
+            int number = 0;
+            boolean header = true;
+            for (String line = reader.readLine(); line != null; line = reader.readLine()) {
+                number++;
+                if (line.startsWith("# source:")) {
+                    source = line.substring("# source:".length()).strip();
+                }
+                if (line.startsWith("#") || line.isBlank()) {
+                    continue;
+                }
+                if (header) {
+                    header = false;
+                    continue;
+                }
+                String[] f = line.split(",");
+                try {
+                    int z = Elements.atomicNumber(f[0]).orElseThrow(() -> new IllegalArgumentException("unknown element " + f[0]));
+                    int l = Integer.parseInt(f[1]);
+                    List<ModelPotential.Parameters> list = sets.computeIfAbsent(z, k -> new ArrayList<>());
+                    if (l != list.size() || f.length != 9) {
+                        throw new IllegalArgumentException("expected l = " + list.size() + " and 9 fields");
+                    }
+                    heads.put(z, new double[] {Double.parseDouble(f[2]), Double.parseDouble(f[3])});
+                    list.add(new ModelPotential.Parameters(Double.parseDouble(f[4]), Double.parseDouble(f[5]),
+                            Double.parseDouble(f[6]), Double.parseDouble(f[7]), Double.parseDouble(f[8])));
+                } catch (RuntimeException e) {
+                    throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, resource + ":" + number + ": "
+                            + e.getMessage() + "\n    " + line);
+                }
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
+        }
+        Map<Integer, ModelPotential> out = new LinkedHashMap<>();
+        for (Map.Entry<Integer, List<ModelPotential.Parameters>> e : sets.entrySet()) {
+            double[] head = heads.get(e.getKey());
+            out.put(e.getKey(), new ModelPotential((int) head[1], head[0], e.getValue(), source == null ? resource
+                    : source));
+        }
+        return Collections.unmodifiableMap(out);
     }
 
     private static InputStream open(String resource) {
@@ -168,6 +225,21 @@ public final class RydbergData {
     public AlkaliAtom atom(Species species) {
         Entry entry = entry(species);
         return AlkaliAtom.of(entry.content().defects(), measuredLevels(entry.levels()), entry.content().core());
+    }
+
+    /**
+     * @param species a neutral alkali atom (any isotope)
+     * @return the Marinescu et al. (1994) core model potential of the element, for
+     *         {@link AlkaliAtom#withModelPotential}
+     * @throws ReferenceDataException when the element has none in the built-in data
+     */
+    public ModelPotential modelPotential(Species species) {
+        ModelPotential potential = potentials.get(species.z());
+        if (potential == null || species.charge() != 0) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no built-in model potential for "
+                    + species + "; available for Li, Na, K, Rb, Cs");
+        }
+        return potential;
     }
 
     /**

@@ -41,7 +41,9 @@ import org.ritzwerk.engine.angular.WignerSymbols;
  * given.
  *
  * <p><b>Wavefunctions</b>: {@link RadialWavefunction} (Coulomb approximation at the level's
- * own energy, Numerov on a square-root grid, reduced-mass units). Radial integrals are returned
+ * own energy, Numerov on a square-root grid, reduced-mass units), or, after
+ * {@link #withModelPotential(ModelPotential)}, the Marinescu et al. (1994) core potential at the
+ * same energy. Radial integrals are returned
  * in Bohr radii a0: the reduced-mass length {@code a_mu = a0 R_inf / R_M} is converted back.
  *
  * <p><b>Dipole convention</b> (A. R. Edmonds (1957) eqs. 5.4.1 and 7.1.7): Wigner-Eckart
@@ -76,9 +78,12 @@ public final class AlkaliAtom {
     private final int maxSeriesL;
     private final State ground;
     private final double step;
+    private final ModelPotential model;
 
-    private AlkaliAtom(QuantumDefects defects, List<MeasuredLevel> measuredList, CorePolarizability core, double step) {
+    private AlkaliAtom(QuantumDefects defects, List<MeasuredLevel> measuredList, CorePolarizability core, double step,
+            ModelPotential model) {
         this.defects = defects;
+        this.model = model;
         this.measuredList = List.copyOf(measuredList);
         this.core = core;
         this.step = step;
@@ -118,7 +123,7 @@ public final class AlkaliAtom {
     public static AlkaliAtom of(QuantumDefects defects, List<MeasuredLevel> measured, CorePolarizability core) {
         Objects.requireNonNull(defects, "defects");
         Objects.requireNonNull(measured, "measured");
-        return new AlkaliAtom(defects, measured, core, DEFAULT_STEP);
+        return new AlkaliAtom(defects, measured, core, DEFAULT_STEP, null);
     }
 
     /**
@@ -129,7 +134,24 @@ public final class AlkaliAtom {
         if (!(newStep >= 1e-4 && newStep <= 0.1)) {
             throw new IllegalArgumentException("Numerov step must be 1e-4 to 0.1, got " + newStep);
         }
-        return new AlkaliAtom(defects, measuredList, core, newStep);
+        return new AlkaliAtom(defects, measuredList, core, newStep, model);
+    }
+
+    /**
+     * @param potential a core model potential for the wavefunctions (energies stay those of the
+     *                  levels), or null for the Coulomb approximation
+     * @return the same atom with radial functions integrated in that potential; the integration
+     *         still stops at the core radius {@code alpha_d^(1/3)} (as ARC does, N. Sibalic et al.,
+     *         Comput. Phys. Commun. 220, 319 (2017)), so the potential shapes the functions between
+     *         the core and the outer region, where it tends to -1/r
+     */
+    public AlkaliAtom withModelPotential(ModelPotential potential) {
+        return new AlkaliAtom(defects, measuredList, core, step, potential);
+    }
+
+    /** @return the model potential the wavefunctions use, if any (else the Coulomb approximation) */
+    public Optional<ModelPotential> modelPotential() {
+        return Optional.ofNullable(model);
     }
 
     private static int key(int l, int twoJ) {
@@ -370,8 +392,9 @@ public final class AlkaliAtom {
      */
     public RadialWavefunction wavefunction(State state) {
         Level level = level(state);
-        double inner = core == null ? 0 : core.coreRadiusBohr() / lengthScale();
-        return RadialWavefunction.integrate(state, level.effectiveN(), inner, step, lengthScale());
+        double alpha = core != null ? core.dipoleAu() : model != null ? model.alphaC() : 0;
+        double inner = Math.cbrt(alpha) / lengthScale();
+        return RadialWavefunction.integrate(state, level.effectiveN(), inner, step, lengthScale(), model);
     }
 
     /** a_mu / a0 = R_inf / R_M. */
@@ -637,6 +660,7 @@ public final class AlkaliAtom {
 
     @Override
     public String toString() {
-        return "AlkaliAtom[" + species() + ", " + defects.info().id() + ", " + measuredList.size() + " measured levels]";
+        return "AlkaliAtom[" + species() + ", " + defects.info().id() + ", " + measuredList.size() + " measured levels"
+                + (model == null ? ", Coulomb approximation]" : ", model potential]");
     }
 }

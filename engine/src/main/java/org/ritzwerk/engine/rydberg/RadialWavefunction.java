@@ -26,9 +26,11 @@ import java.util.Objects;
  * {@code alpha_d^(1/3)} (when the core polarizability is known), or, for l &gt; 0, inside the
  * inner classical turning point as soon as |X| starts to grow again (the irregular solution
  * taking over, as it must at a non-integer n*). The function is normalised by
- * {@code 2 h sum X_k^2 x_k^2 = 1} (the integral of R^2 r^2 dr) and its sign chosen positive in
- * the innermost lobe (for hydrogen, positive near the origin: the convention of
- * {@link org.ritzwerk.engine.hydrogenic.RadialIntegrals}).
+ * {@code 2 h sum X_k^2 x_k^2 = 1} (the integral of R^2 r^2 dr) and is positive in its outermost
+ * lobe, at large r, whatever happens at the core: the sign of a matrix element then does not
+ * depend on the inner cut-off or on the potential used there. (For hydrogen this differs from the
+ * positive-near-the-origin convention of {@link org.ritzwerk.engine.hydrogenic.RadialIntegrals}
+ * by {@code (-1)^(n-l-1)}.)
  *
  * <p>Accuracy: for zero quantum defects the dipole integrals agree with the closed form to about
  * 1e-8 relative with the default step h = 0.01 (see the tests); the Coulomb approximation itself
@@ -65,6 +67,16 @@ public final class RadialWavefunction {
      */
     static RadialWavefunction integrate(State state, double effectiveN, double innerRadius, double step,
             double lengthScale) {
+        return integrate(state, effectiveN, innerRadius, step, lengthScale, null);
+    }
+
+    /**
+     * As {@link #integrate(State, double, double, double, double)}, with {@code V = V_l(r)} of a
+     * model potential instead of -1/r when {@code model} is not null (radii in a0 there; the
+     * reduced-mass scaling of the potential is neglected).
+     */
+    static RadialWavefunction integrate(State state, double effectiveN, double innerRadius, double step,
+            double lengthScale, ModelPotential model) {
         Objects.requireNonNull(state, "state");
         if (!(effectiveN > 0) || Double.isInfinite(effectiveN)) {
             throw new IllegalArgumentException("effective principal quantum number must be finite and positive, got "
@@ -86,16 +98,17 @@ public final class RadialWavefunction {
         double xTurning = Math.sqrt(turning);
         double[] values = new double[last + 1];
         double xLast = last * step;
-        double gLast = -8 + a * xLast * xLast + centrifugal / (xLast * xLast);
+        double gLast = g(xLast, a, centrifugal, l, model, lengthScale);
         values[last] = 1e-10;
         values[last - 1] = values[last] * Math.exp(step * Math.sqrt(Math.max(gLast, 0)));
         double xk = (last - 1) * step;
         double gNext = gLast;
-        double gK = -8 + a * xk * xk + centrifugal / (xk * xk);
+        double gK = g(xk, a, centrifugal, l, model, lengthScale);
         int stop = innermost;
         for (int k = last - 1; k > innermost; k--) {
             double xPrev = (k - 1) * step;
-            double gPrev = -8 + a * xPrev * xPrev + centrifugal / (xPrev * xPrev);
+            double gPrev = model == null ? -8 + a * xPrev * xPrev + centrifugal / (xPrev * xPrev)
+                    : g(xPrev, a, centrifugal, l, model, lengthScale);
             double next = (2 * (1 + 5 * h12 * gK) * values[k] - (1 - h12 * gNext) * values[k + 1]) / (1 - h12 * gPrev);
             if (l > 0 && xPrev < xTurning && Math.abs(next) > Math.abs(values[k])) {
                 stop = k;
@@ -110,20 +123,22 @@ public final class RadialWavefunction {
             double x = k * step;
             sum += values[k] * values[k] * x * x;
         }
+        // the inward start is positive, so the function is positive in its outermost lobe
         double norm = Math.sqrt(2 * step * sum);
-        // the sign of the innermost lobe (first maximum of |X| from inside) is the sign near the origin
-        int peak = stop;
-        while (peak < last && Math.abs(values[peak + 1]) >= Math.abs(values[peak])) {
-            peak++;
-        }
-        if (values[peak] < 0) {
-            norm = -norm;
-        }
         double[] chi = new double[last - stop + 1];
         for (int k = stop; k <= last; k++) {
             chi[k - stop] = values[k] / norm;
         }
         return new RadialWavefunction(state, effectiveN, step, stop, chi, lengthScale);
+    }
+
+    /** g(x) = 8 x^2 (V - W) + (2l + 1/2)(2l + 3/2) / x^2 with W = -1/(2 n*^2), i.e. a = 4 / n*^2. */
+    private static double g(double x, double a, double centrifugal, int l, ModelPotential model, double lengthScale) {
+        double x2 = x * x;
+        if (model == null) {
+            return -8 + a * x2 + centrifugal / x2;
+        }
+        return 8 * x2 * model.potential(l, x2 * lengthScale) + a * x2 + centrifugal / x2;
     }
 
     /**

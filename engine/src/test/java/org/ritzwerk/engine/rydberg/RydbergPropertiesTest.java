@@ -33,7 +33,9 @@ class RydbergPropertiesTest {
                     int n2 = Math.max(l2 + 1, Math.min(100, n + dn));
                     State a = State.of(n, l, 2 * l + 1);
                     State b = State.of(n2, l2, 2 * l2 + 1);
-                    double exact = RadialIntegrals.dipole(n, l, n2, l2);
+                    // RadialIntegrals: positive near the origin; here positive at large r: (-1)^(n-l-1) each
+                    double phase = ((n - l - 1 + n2 - l2 - 1) & 1) == 0 ? 1 : -1;
+                    double exact = phase * RadialIntegrals.dipole(n, l, n2, l2);
                     double numerov = hydrogen.radialDipoleBohr(a, b);
                     // 1e-5 relative, with an absolute floor for integrals that nearly cancel
                     double floor = 1e-8 * Math.max(n, n2) * Math.max(n, n2);
@@ -223,6 +225,21 @@ class RydbergPropertiesTest {
         assertThrows(IllegalArgumentException.class, () -> rubidium.ladder(State.of(5, 1, 3), State.of(5, 0, 1),
                 State.of(40, 0, 1)));
         assertThrows(IllegalArgumentException.class, () -> rubidium.blackbodyRate(State.of(30, 0, 1), Double.NaN));
+    }
+
+    @Test
+    void modelPotentialTendsToTheNuclearAndTheIonicCharge() {
+        // Marinescu et al. (1994) eq. 6: Z_l(r) -> Z at the nucleus and -> 1 far out (Rb l = 0 parameters)
+        ModelPotential rb = new ModelPotential(37, 9.076, List.of(new ModelPotential.Parameters(3.69628474,
+                1.64915255, -9.86069196, 0.19579987, 1.66242117)), "Marinescu et al. 1994 via pairinteraction");
+        assertEquals(-37 / 1e-4, rb.potential(0, 1e-4), 1e-2 * 37 / 1e-4);
+        assertEquals(-1 / 200.0 - 9.076 / (2 * Math.pow(200, 4)), rb.potential(0, 200), 1e-12);
+        assertEquals(rb.potential(0, 3), rb.potential(7, 3), 0.0);
+        // with the model potential the Rydberg functions stay normalised and agree with the Coulomb approximation
+        AlkaliAtom model = rubidium.withModelPotential(rb);
+        double ca = rubidium.radialDipoleBohr(State.of(40, 0, 1), State.of(40, 1, 3));
+        assertEquals(ca, model.radialDipoleBohr(State.of(40, 0, 1), State.of(40, 1, 3)), 1e-4 * Math.abs(ca));
+        assertEquals(1.0, model.expectationBohr(State.of(40, 0, 1), 0), 1e-12);
     }
 
     @Test

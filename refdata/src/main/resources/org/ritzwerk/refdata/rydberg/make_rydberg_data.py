@@ -11,6 +11,7 @@ Outputs (beside this script):
   levels-<atom>.csv            measured energies of the levels below each series' valid-from-n
                                (project format ritzwerk-levels 1)
   fit-residuals.txt            the comparison that chose valid-from-n
+  model-potentials.csv         Marinescu, Sadeghpour & Dalgarno (1994) core model potentials
 
 How valid-from-n is chosen.  For each series the Rydberg-Ritz energy
     E(n) = limit - R_M / (n - delta(n))^2,  delta = d0 + d2/(n-d0)^2 + d4/(n-d0)^4 + ...
@@ -446,6 +447,33 @@ LI_LEVELS = """
 10 2 5 5.2556
 """
 
+# Marinescu, Sadeghpour & Dalgarno, Phys. Rev. A 49, 982 (1994): element, l, alpha_c (a0^3), Z, a1, a2,
+# a3, a4, r_c, as printed in pairinteraction's quantum_defects.sql (commit 4b3609aa, table
+# model_potential); ARC's alkali_atom_data.py has the same numbers except Rb l = 1 a4, printed
+# there as -0.8163314 (pairinteraction: -0.81633314, used here).
+MARINESCU_1994 = """
+Li 0 0.1923 3 2.47718079 1.84150932 -0.02169712 -0.11988362 0.61340824
+Li 1 0.1923 3 3.45414648 2.55151080 -0.21646561 -0.06990078 0.61566441
+Li 2 0.1923 3 2.51909839 2.43712450 0.32505524 0.10602430 2.34126273
+Li 3 0.1923 3 2.51909839 2.43712450 0.32505524 0.10602430 2.34126273
+Na 0 0.9448 11 4.82223117 2.45449865 -1.12255048 -1.42631393 0.45489422
+Na 1 0.9448 11 5.08382502 2.18226881 -1.19534623 -1.03142861 0.45798739
+Na 2 0.9448 11 3.53324124 2.48697936 -0.75688448 -1.27852357 0.71875312
+Na 3 0.9448 11 1.11056646 1.05458759 1.73203428 -0.09265696 28.6735059
+K 0 5.3310 19 3.56079437 1.83909642 -1.74701102 -1.03237313 0.83167545
+K 1 5.3310 19 3.65670429 1.67520788 -2.07416615 -0.89030421 0.85235381
+K 2 5.3310 19 4.12713694 1.79837462 -1.69935174 -0.98913582 0.83216907
+K 3 5.3310 19 1.42310446 1.27861156 4.77441476 -0.94829262 6.50294371
+Rb 0 9.076 37 3.69628474 1.64915255 -9.86069196 0.19579987 1.66242117
+Rb 1 9.076 37 4.44088978 1.92828831 -16.79597770 -0.81633314 1.50195124
+Rb 2 9.076 37 3.78717363 1.57027864 -11.6558897 0.52942835 4.86851938
+Rb 3 9.076 37 2.39848933 1.76810544 -12.0710678 0.77256589 4.79831327
+Cs 0 15.6440 55 3.49546309 1.47533800 -9.72143084 0.02629242 1.92046930
+Cs 1 15.6440 55 4.69366096 1.71398344 -24.65624280 -0.09543125 2.13383095
+Cs 2 15.6440 55 4.32466196 1.61365288 -6.70128850 -0.74095193 0.93007296
+Cs 3 15.6440 55 3.01048361 1.40000001 -3.20036138 0.00034538 1.99969677
+"""
+
 NIST_COPY = {"li": "li_NIST_level_data.ascii", "na": "na_NIST_level_data.ascii", "k": "k_NIST_level_data.ascii",
              "rb": "rb_NIST_level_data.ascii", "cs": "cs_NIST_level_data.ascii"}
 
@@ -591,6 +619,16 @@ def main():
                                                            j_text(two_j), ev))
         with open("levels-%s.csv" % atom_id, "w") as f:
             f.write("\n".join(lv) + "\n")
+    mp = ["# ritzwerk Rydberg model potentials 1",
+          "# source: M. Marinescu, H. R. Sadeghpour and A. Dalgarno, Phys. Rev. A 49, 982 (1994), eqs. 5-7; "
+          "read in " + PAIR + " (table model_potential); ARC prints Rb l=1 a4 as -0.8163314, here -0.81633314",
+          "# provenance: published",
+          "# units: alpha_c in a0^3; a1, a2, a3 in a0^-1; a4 in a0^-2; r_c in a0; written by make_rydberg_data.py",
+          "element,l,alpha_c,z,a1,a2,a3,a4,rc"]
+    for line in MARINESCU_1994.strip().splitlines():
+        mp.append(",".join(line.split()))
+    with open("model-potentials.csv", "w") as f:
+        f.write("\n".join(mp) + "\n")
     with open("fit-residuals.txt", "w") as f:
         f.write("\n".join(report) + "\n")
 
