@@ -54,7 +54,15 @@ import org.ritzwerk.engine.angular.WignerSymbols;
  * {@code A(u -> l) = omega^3 |<l||d||u>|^2 / (3 pi eps0 hbar c^3 (2j_u + 1))}. The reduced
  * elements are symmetric up to sign, {@code |<a||d||b>| = |<b||d||a>|}. D. A. Steck's alkali
  * D-line data use {@code <J||er||J'>} with the factor {@code sqrt(2J+1)} taken out of the
- * Wigner-Eckart theorem: Steck's value is this one divided by {@code sqrt(2j_a + 1)}.
+ * Wigner-Eckart theorem: Steck's value is this one divided by {@code sqrt(2j_a + 1)}. Signs: every
+ * radial function is positive at large r (see {@link RadialWavefunction}).
+ *
+ * <p><b>Accuracy</b> (see the tests): levels as good as the measured values and the fits (the
+ * fits meet the measured levels within 0.1 cm^-1 from valid-from-n on); Rydberg-Rydberg dipole
+ * integrals limited by the Coulomb approximation at the 1e-3 level or better; resonance-line
+ * elements of the lowest states 1 to 6 % high (no core potential, no core polarization of the
+ * dipole operator), so lifetimes of the lowest p levels come out 3 to 11 % short; black-body
+ * rates of Rb within 5 % of the Beterov et al. (2009) fits for n = 30 to 60.
  */
 public final class AlkaliAtom {
 
