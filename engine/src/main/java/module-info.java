@@ -7,11 +7,13 @@ module org.ritzwerk.engine {
     requires transitive org.ritzwerk.api;
     requires commons.math3;
 
+    exports org.ritzwerk.engine.angular;
     exports org.ritzwerk.engine.calibrate;
     exports org.ritzwerk.engine.convert;
     exports org.ritzwerk.engine.hydrogenic;
     exports org.ritzwerk.engine.identify;
     exports org.ritzwerk.engine.plasma;
     exports org.ritzwerk.engine.profile;
+    exports org.ritzwerk.engine.rydberg;
     exports org.ritzwerk.engine.synth;
 }

@@ -5,7 +5,7 @@
  */
 module org.ritzwerk.refdata {
     requires transitive org.ritzwerk.api;
-    requires org.ritzwerk.engine;
+    requires transitive org.ritzwerk.engine;
     requires tools.jackson.databind;
     requires tools.jackson.dataformat.csv;
 
@@ -14,5 +14,6 @@ module org.ritzwerk.refdata {
     uses org.ritzwerk.data.ReferenceDataProvider;
 
     provides org.ritzwerk.data.ReferenceDataProvider with org.ritzwerk.refdata.NuclearProvider,
-            org.ritzwerk.refdata.LampProvider, org.ritzwerk.refdata.HydrogenLikeProvider;
+            org.ritzwerk.refdata.LampProvider, org.ritzwerk.refdata.HydrogenLikeProvider,
+            org.ritzwerk.refdata.RydbergProvider;
 }

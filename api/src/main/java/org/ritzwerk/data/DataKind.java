@@ -10,7 +10,7 @@ public enum DataKind {
     LINES,
     /** Calibration-lamp lines ({@link LineList}, wavelengths in air as lamps are used). */
     LAMP_LINES,
-    /** Quantum-defect parameters of alkali atoms ({@link QuantumDefects}; no built-in set yet). */
+    /** Quantum-defect parameters of alkali atoms ({@link QuantumDefects}). */
     QUANTUM_DEFECTS,
     /** Nuclear data of isotopes ({@link IsotopeTable}). */
     NUCLEAR;

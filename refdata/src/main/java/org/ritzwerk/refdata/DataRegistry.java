@@ -52,10 +52,14 @@ public final class DataRegistry {
         this.providers = List.copyOf(sorted);
     }
 
-    /** @return a registry of Ritzwerk's built-in data only (nuclear data, lamp sets, computed sets) */
+    /**
+     * @return a registry of Ritzwerk's built-in data only (nuclear data, lamp sets, computed sets,
+     *         Rydberg quantum defects and levels)
+     */
     public static DataRegistry builtIn() {
         return new DataRegistry(List.of(new Ranked(new NuclearProvider(), Origin.BUILT_IN),
-                new Ranked(new LampProvider(), Origin.BUILT_IN), new Ranked(new HydrogenLikeProvider(), Origin.BUILT_IN)));
+                new Ranked(new LampProvider(), Origin.BUILT_IN), new Ranked(new HydrogenLikeProvider(), Origin.BUILT_IN),
+                new Ranked(new RydbergProvider(), Origin.BUILT_IN)));
     }
 
     /**

@@ -65,7 +65,8 @@ class DataRegistryTest {
         DataRegistry registry = DataRegistry.builtIn();
         List<String> ids = registry.list().stream().map(l -> l.info().id()).collect(Collectors.toList());
         assertTrue(ids.containsAll(List.of("nuclear-isotopes", "lamp-hg-i", "lamp-ne-i", "lamp-ar-i", "lamp-kr-i",
-                "lamp-xe-i", "computed-h-i-lines", "computed-d-i-levels", "computed-he-ii-lines")), ids.toString());
+                "lamp-xe-i", "computed-h-i-lines", "computed-d-i-levels", "computed-he-ii-lines", "quantum-defects-rb-87",
+                "levels-cs-133")), ids.toString());
         registry.list().forEach(l -> {
             assertEquals(Origin.BUILT_IN, l.origin());
             assertTrue(!l.info().provenance().detail().isBlank());
@@ -78,7 +79,8 @@ class DataRegistryTest {
     void discoveryFindsTheBuiltInProviders() {
         List<String> providers = DataRegistry.discoverDefault().list().stream().map(DataRegistry.Listing::providerId)
                 .distinct().sorted().collect(Collectors.toList());
-        assertEquals(List.of("ritzwerk-hydrogen-like", "ritzwerk-lamps", "ritzwerk-nuclear"), providers);
+        assertEquals(List.of("ritzwerk-hydrogen-like", "ritzwerk-lamps", "ritzwerk-nuclear", "ritzwerk-rydberg"),
+                providers);
     }
 
     @Test

@@ -1,0 +1,6 @@
+/**
+ * Angular-momentum algebra shared by the level models: Wigner 3j and 6j symbols. Arguments are
+ * given doubled (2j) so that half-integers are exact; results are dimensionless. Stateless and
+ * thread-safe.
+ */
+package org.ritzwerk.engine.angular;

@@ -1,0 +1,674 @@
+package org.ritzwerk.engine.rydberg;
+
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.QuantumDefects;
+import org.ritzwerk.engine.angular.WignerSymbols;
+
+/**
+ * One alkali atom (one valence electron outside a closed core) built from a quantum-defect set,
+ * measured low-lying levels and, optionally, the core polarizabilities: its levels, radial
+ * wavefunctions, dipole matrix elements, decay rates, lifetimes and transition frequencies.
+ * Immutable and thread-safe; nothing is cached, so every call recomputes what it needs.
+ *
+ * <p><b>Levels</b> ({@link #level(State)}), energies above the ground level in cm^-1:
+ * <ol>
+ * <li>a measured level given to {@link #of} is used as it is ({@link LevelOrigin#MEASURED});</li>
+ * <li>else, where the set has a series for l and j and {@code n >= validFromN}, the modified
+ * Rydberg-Ritz formula {@code E = E_limit - R_M / (n - delta)^2},
+ * {@code delta = d0 + d2/(n-d0)^2 + d4/(n-d0)^4 + ...} (T. F. Gallagher, Rydberg Atoms (1994),
+ * eq. 16.19) ({@link LevelOrigin#QUANTUM_DEFECT_FIT});</li>
+ * <li>for l above every series of the set: the core-polarization quantum defect
+ * {@code delta = n^3 (alpha_d <r^-4> / 2 + alpha_q <r^-6> / 2)} with the hydrogenic expectation
+ * values {@code <r^-4> = [3n^2 - l(l+1)] / [2 n^5 (l-1/2) l (l+1/2) (l+1) (l+3/2)]} and
+ * {@code <r^-6> = [35n^4 - 5n^2 (6l(l+1) - 5) + 3(l-1)l(l+1)(l+2)] / [8 n^7 (l-3/2)(l-1)(l-1/2) l
+ * (l+1/2)(l+1)(l+3/2)(l+2)(l+5/2)]} (H. A. Bethe and E. E. Salpeter (1957), eq. 3.26; Gallagher
+ * ch. 16; both checked against sympy's exact integrals), fine structure neglected
+ * ({@link LevelOrigin#CORE_POLARIZATION}); without polarizabilities, delta = 0
+ * ({@link LevelOrigin#HYDROGENIC});</li>
+ * <li>anything else is refused with a {@link RydbergException}: a state below the lowest one of
+ * its series ({@link RydbergException#NO_SUCH_STATE}), or below a series' validity with no
+ * measured value ({@link RydbergException#NO_LEVEL}). Nothing is extrapolated silently.</li>
+ * </ol>
+ * The lowest n of a series l is the lowest measured level with that l, or l + 1 when none is
+ * given.
+ *
+ * <p><b>Wavefunctions</b>: {@link RadialWavefunction} (Coulomb approximation at the level's
+ * own energy, Numerov on a square-root grid, reduced-mass units), or, after
+ * {@link #withModelPotential(ModelPotential)}, the Marinescu et al. (1994) core potential at the
+ * same energy. Radial integrals are returned
+ * in Bohr radii a0: the reduced-mass length {@code a_mu = a0 R_inf / R_M} is converted back.
+ *
+ * <p><b>Dipole convention</b> (A. R. Edmonds (1957) eqs. 5.4.1 and 7.1.7): Wigner-Eckart
+ * {@code <j m|d_q|j' m'> = (-1)^(j-m) (j 1 j'; -m q m') <j||d||j'>},
+ * {@code <l j||d||l' j'> = (-1)^(l+s+j'+1) sqrt((2j+1)(2j'+1)) {l j s; j' l' 1} <l||d||l'>},
+ * {@code <l||d||l'> = (-1)^l sqrt((2l+1)(2l'+1)) (l 1 l'; 0 0 0) <n l|r|n' l'>}, in units of
+ * e a0, so that {@code sum over m', q of |<j m|d_q|j' m'>|^2 = |<j||d||j'>|^2 / (2j+1)} and
+ * {@code A(u -> l) = omega^3 |<l||d||u>|^2 / (3 pi eps0 hbar c^3 (2j_u + 1))}. The reduced
+ * elements are symmetric up to sign, {@code |<a||d||b>| = |<b||d||a>|}. D. A. Steck's alkali
+ * D-line data use {@code <J||er||J'>} with the factor {@code sqrt(2J+1)} taken out of the
+ * Wigner-Eckart theorem: Steck's value is this one divided by {@code sqrt(2j_a + 1)}. Signs: every
+ * radial function is positive at large r (see {@link RadialWavefunction}).
+ *
+ * <p><b>Accuracy</b> (see the tests): levels as good as the measured values and the fits (the
+ * fits meet the measured levels within 0.1 cm^-1 from valid-from-n on); Rydberg-Rydberg dipole
+ * integrals limited by the Coulomb approximation at the 1e-3 level or better; resonance-line
+ * elements of the lowest states 1 to 6 % high (no core potential, no core polarization of the
+ * dipole operator), so lifetimes of the lowest p levels come out 3 to 11 % short; black-body
+ * rates of Rb within 5 % of the Beterov et al. (2009) fits for n = 30 to 60.
+ */
+public final class AlkaliAtom {
+
+    /** The default Numerov step in x = sqrt(r / a_mu). */
+    public static final double DEFAULT_STEP = 0.01;
+
+    private static final double H = PhysicalConstants.H;
+    private static final double C = PhysicalConstants.C;
+    private static final double ALPHA = PhysicalConstants.FINE_STRUCTURE.value();
+    private static final double R_INF_PER_CM = PhysicalConstants.RYDBERG.value() / 100;
+    private static final double BOHR = ALPHA / (4 * Math.PI * PhysicalConstants.RYDBERG.value());
+    private static final double EPSILON_0 = PhysicalConstants.E * PhysicalConstants.E / (2 * ALPHA * H * C);
+    private static final double HBAR = H / (2 * Math.PI);
+    private static final double DIPOLE_AU = PhysicalConstants.E * BOHR;
+
+    private final QuantumDefects defects;
+    private final Map<Integer, QuantumDefects.Series> series;
+    private final Map<State, MeasuredLevel> measured;
+    private final List<MeasuredLevel> measuredList;
+    private final CorePolarizability core;
+    private final int maxSeriesL;
+    private final State ground;
+    private final double step;
+    private final ModelPotential model;
+
+    private AlkaliAtom(QuantumDefects defects, List<MeasuredLevel> measuredList, CorePolarizability core, double step,
+            ModelPotential model) {
+        this.defects = defects;
+        this.model = model;
+        this.measuredList = List.copyOf(measuredList);
+        this.core = core;
+        this.step = step;
+        Map<Integer, QuantumDefects.Series> bySeries = new HashMap<>();
+        int maxL = -1;
+        for (QuantumDefects.Series s : defects.series()) {
+            if (bySeries.put(key(s.l(), s.twoJ()), s) != null) {
+                throw new IllegalArgumentException("two series for l = " + s.l() + ", 2j = " + s.twoJ() + " in "
+                        + defects.info().id());
+            }
+            maxL = Math.max(maxL, s.l());
+        }
+        this.series = Collections.unmodifiableMap(bySeries);
+        this.maxSeriesL = maxL;
+        Map<State, MeasuredLevel> byState = new HashMap<>();
+        for (MeasuredLevel level : measuredList) {
+            if (byState.put(level.state(), level) != null) {
+                throw new IllegalArgumentException("measured level " + level.state() + " given twice");
+            }
+            if (level.energyPerCm() >= defects.limitPerCm()) {
+                throw new IllegalArgumentException("measured level " + level.state() + " at " + level.energyPerCm()
+                        + " cm-1 is not below the ionisation limit " + defects.limitPerCm() + " cm-1");
+            }
+        }
+        this.measured = Collections.unmodifiableMap(byState);
+        this.ground = findGround();
+    }
+
+    /**
+     * @param defects  the quantum-defect set (limit, R_M, series)
+     * @param measured measured levels (used instead of the formula wherever given); may be empty
+     * @param core     the core polarizabilities, or null when unknown (then l above the series is
+     *                 hydrogenic and the Coulomb approximation integrates to the origin)
+     * @return the atom, with the default Numerov step
+     * @throws IllegalArgumentException for duplicate series or levels, or a level above the limit
+     */
+    public static AlkaliAtom of(QuantumDefects defects, List<MeasuredLevel> measured, CorePolarizability core) {
+        Objects.requireNonNull(defects, "defects");
+        Objects.requireNonNull(measured, "measured");
+        return new AlkaliAtom(defects, measured, core, DEFAULT_STEP, null);
+    }
+
+    /**
+     * @param newStep the Numerov step h in x = sqrt(r / a_mu); 1e-4 to 0.1
+     * @return the same atom integrated with that step
+     */
+    public AlkaliAtom withStep(double newStep) {
+        if (!(newStep >= 1e-4 && newStep <= 0.1)) {
+            throw new IllegalArgumentException("Numerov step must be 1e-4 to 0.1, got " + newStep);
+        }
+        return new AlkaliAtom(defects, measuredList, core, newStep, model);
+    }
+
+    /**
+     * @param potential a core model potential for the wavefunctions (energies stay those of the
+     *                  levels), or null for the Coulomb approximation
+     * @return the same atom with radial functions integrated in that potential; the integration
+     *         still stops at the core radius {@code alpha_d^(1/3)} (as ARC does, N. Sibalic et al.,
+     *         Comput. Phys. Commun. 220, 319 (2017)), so the potential shapes the functions between
+     *         the core and the outer region, where it tends to -1/r
+     */
+    public AlkaliAtom withModelPotential(ModelPotential potential) {
+        return new AlkaliAtom(defects, measuredList, core, step, potential);
+    }
+
+    /** @return the model potential the wavefunctions use, if any (else the Coulomb approximation) */
+    public Optional<ModelPotential> modelPotential() {
+        return Optional.ofNullable(model);
+    }
+
+    private static int key(int l, int twoJ) {
+        return l * 1000 + twoJ;
+    }
+
+    private State findGround() {
+        State best = null;
+        double lowest = Double.POSITIVE_INFINITY;
+        for (MeasuredLevel level : measuredList) {
+            if (level.energyPerCm() < lowest) {
+                lowest = level.energyPerCm();
+                best = level.state();
+            }
+        }
+        if (best != null) {
+            return best;
+        }
+        for (QuantumDefects.Series s : defects.series()) {
+            int n = Math.max(s.validFromN(), s.l() + 1);
+            State candidate = new State(n, s.l(), s.twoJ());
+            double e = fitEnergy(s, n);
+            if (e < lowest) {
+                lowest = e;
+                best = candidate;
+            }
+        }
+        if (best == null) {
+            throw new IllegalArgumentException("quantum-defect set " + defects.info().id() + " has no series and no "
+                    + "measured level: no ground state");
+        }
+        return best;
+    }
+
+    /** @return the species */
+    public Species species() {
+        return defects.species();
+    }
+
+    /** @return the quantum-defect set the atom was built from */
+    public QuantumDefects quantumDefects() {
+        return defects;
+    }
+
+    /** @return the measured levels given, in the order given; immutable */
+    public List<MeasuredLevel> measuredLevels() {
+        return measuredList;
+    }
+
+    /** @return the core polarizabilities, if given */
+    public Optional<CorePolarizability> corePolarizability() {
+        return Optional.ofNullable(core);
+    }
+
+    /** @return the Numerov step in x = sqrt(r / a_mu) */
+    public double step() {
+        return step;
+    }
+
+    /** @return the lowest level: the lowest measured one, else the lowest first member of a series */
+    public State groundState() {
+        return ground;
+    }
+
+    /** @return the ionisation limit above the ground level, cm^-1 */
+    public double ionisationLimitPerCm() {
+        return defects.limitPerCm();
+    }
+
+    /** @return the ionisation energy from the ground level, joules */
+    public double ionisationLimitJoules() {
+        return defects.limitPerCm() * 100 * H * C;
+    }
+
+    /** @return the mass-corrected Rydberg constant R_M of the set, cm^-1 */
+    public double rydbergPerCm() {
+        return defects.rydbergPerCm();
+    }
+
+    /**
+     * @param l orbital quantum number, not negative
+     * @return the lowest n of the series l: the lowest measured level with that l, else l + 1
+     */
+    public int lowestN(int l) {
+        if (l < 0) {
+            throw new IllegalArgumentException("l must be >= 0, got " + l);
+        }
+        int lowest = Integer.MAX_VALUE;
+        for (State s : measured.keySet()) {
+            if (s.l() == l) {
+                lowest = Math.min(lowest, s.n());
+            }
+        }
+        return lowest == Integer.MAX_VALUE ? l + 1 : lowest;
+    }
+
+    /**
+     * @param n    principal quantum number
+     * @param l    orbital quantum number
+     * @param twoJ twice j
+     * @return the level
+     * @throws RydbergException when the model has no energy for it (see the class comment)
+     */
+    public Level level(int n, int l, int twoJ) {
+        return level(new State(n, l, twoJ));
+    }
+
+    /**
+     * @param state a state
+     * @return its level: energy above the ground level in cm^-1, n*, and where the energy comes from
+     * @throws RydbergException when the model has no energy for it (see the class comment)
+     */
+    public Level level(State state) {
+        Objects.requireNonNull(state, "state");
+        double r = defects.rydbergPerCm();
+        double limit = defects.limitPerCm();
+        MeasuredLevel m = measured.get(state);
+        if (m != null) {
+            return new Level(state, m.energyPerCm(), Math.sqrt(r / (limit - m.energyPerCm())), LevelOrigin.MEASURED);
+        }
+        int lowest = lowestN(state.l());
+        if (state.n() < lowest) {
+            throw new RydbergException(RydbergException.NO_SUCH_STATE, species() + " has no " + state.notation()
+                    + " level: the lowest " + "spdfghik".charAt(Math.min(state.l(), 7)) + " level is n = " + lowest
+                    + " (lower ones are filled by the core)");
+        }
+        QuantumDefects.Series s = series.get(key(state.l(), state.twoJ()));
+        if (s != null) {
+            if (state.n() < s.validFromN()) {
+                throw new RydbergException(RydbergException.NO_LEVEL, species() + " " + state.notation()
+                        + ": the quantum-defect series of " + defects.info().id() + " is valid from n = "
+                        + s.validFromN() + " and no measured energy was given for this level; not extrapolated");
+            }
+            double e = fitEnergy(s, state.n());
+            return new Level(state, e, state.n() - defect(s.coefficients(), state.n()), LevelOrigin.QUANTUM_DEFECT_FIT);
+        }
+        if (state.l() <= maxSeriesL) {
+            throw new RydbergException(RydbergException.NO_LEVEL, species() + " " + state.notation() + ": "
+                    + defects.info().id() + " has series for l <= " + maxSeriesL + " but none for l = " + state.l()
+                    + ", j = " + state.twoJ() + "/2");
+        }
+        double delta = core == null ? 0 : polarizationDefect(state.n(), state.l(), core);
+        double nStar = state.n() - delta;
+        return new Level(state, limit - r / (nStar * nStar), nStar,
+                core == null ? LevelOrigin.HYDROGENIC : LevelOrigin.CORE_POLARIZATION);
+    }
+
+    private double fitEnergy(QuantumDefects.Series s, int n) {
+        double nStar = n - defect(s.coefficients(), n);
+        return defects.limitPerCm() - defects.rydbergPerCm() / (nStar * nStar);
+    }
+
+    private static double defect(List<Double> coefficients, int n) {
+        double d0 = coefficients.get(0);
+        double x = 1 / ((n - d0) * (n - d0));
+        double sum = 0;
+        double power = 1;
+        for (double c : coefficients) {
+            sum += c * power;
+            power *= x;
+        }
+        return sum;
+    }
+
+    /**
+     * The core-polarization quantum defect of a non-penetrating state (see the class comment).
+     *
+     * @param n    principal quantum number
+     * @param l    orbital quantum number, at least 2
+     * @param core the core polarizabilities
+     * @return delta, dimensionless
+     */
+    public static double polarizationDefect(int n, int l, CorePolarizability core) {
+        if (l < 2 || n <= l) {
+            throw new IllegalArgumentException("the polarization formula needs l >= 2 and n > l, got n = " + n
+                    + ", l = " + l);
+        }
+        double nn = n;
+        double ll = l;
+        double lsq = ll * (ll + 1);
+        double rm4 = (3 * nn * nn - lsq) / (2 * Math.pow(nn, 5) * (ll - 0.5) * ll * (ll + 0.5) * (ll + 1) * (ll + 1.5));
+        double rm6 = (35 * Math.pow(nn, 4) - 5 * nn * nn * (6 * lsq - 5) + 3 * (ll - 1) * ll * (ll + 1) * (ll + 2))
+                / (8 * Math.pow(nn, 7) * (ll - 1.5) * (ll - 1) * (ll - 0.5) * ll * (ll + 0.5) * (ll + 1) * (ll + 1.5)
+                        * (ll + 2) * (ll + 2.5));
+        return nn * nn * nn * (core.dipoleAu() * rm4 / 2 + core.quadrupoleAu() * rm6 / 2);
+    }
+
+    /**
+     * @param state a state
+     * @return its energy above the ground level, cm^-1
+     * @throws RydbergException when the model has no energy for it
+     */
+    public double energyPerCm(State state) {
+        return level(state).energyPerCm();
+    }
+
+    /**
+     * @param state a state
+     * @return its energy above the ground level, joules
+     * @throws RydbergException when the model has no energy for it
+     */
+    public double energyJoules(State state) {
+        return level(state).energyJoules();
+    }
+
+    /**
+     * @param from the first state
+     * @param to   the second state
+     * @return {@code (E_to - E_from) / h} in Hz: positive when {@code to} lies above {@code from}
+     * @throws RydbergException when the model has no energy for either
+     */
+    public double frequencyHz(State from, State to) {
+        return (energyPerCm(to) - energyPerCm(from)) * 100 * C;
+    }
+
+    /**
+     * @param lower        the start, e.g. the ground state
+     * @param intermediate the intermediate state, above {@code lower}
+     * @param upper        the Rydberg state, above {@code intermediate}
+     * @return the two resonant photon frequencies and wavelengths
+     * @throws IllegalArgumentException when the three are not in ascending energy
+     * @throws RydbergException         when the model has no energy for one of them
+     */
+    public LadderExcitation ladder(State lower, State intermediate, State upper) {
+        double first = frequencyHz(lower, intermediate);
+        double second = frequencyHz(intermediate, upper);
+        if (!(first > 0) || !(second > 0)) {
+            throw new IllegalArgumentException("a ladder needs ascending energies: " + lower + " -> " + intermediate
+                    + " -> " + upper + " has steps of " + first + " Hz and " + second + " Hz");
+        }
+        return new LadderExcitation(lower, intermediate, upper, first, second);
+    }
+
+    /**
+     * @param state a state
+     * @return its normalised radial wavefunction in the Coulomb approximation
+     * @throws RydbergException when the model has no energy for it
+     */
+    public RadialWavefunction wavefunction(State state) {
+        Level level = level(state);
+        double alpha = core != null ? core.dipoleAu() : model != null ? model.alphaC() : 0;
+        double inner = Math.cbrt(alpha) / lengthScale();
+        return RadialWavefunction.integrate(state, level.effectiveN(), inner, step, lengthScale(), model);
+    }
+
+    /** a_mu / a0 = R_inf / R_M. */
+    private double lengthScale() {
+        return R_INF_PER_CM / defects.rydbergPerCm();
+    }
+
+    /**
+     * @param a     first state
+     * @param b     second state
+     * @param power k, from -2 up
+     * @return {@code <a| r^k |b> = integral R_a R_b r^(2+k) dr} in a0^k
+     */
+    public double radialIntegralBohr(State a, State b, int power) {
+        return RadialWavefunction.overlap(wavefunction(a), wavefunction(b), power) * Math.pow(lengthScale(), power);
+    }
+
+    /**
+     * @param state a state
+     * @param power k, from -2 up
+     * @return {@code <r^k>} in a0^k
+     */
+    public double expectationBohr(State state, int power) {
+        return wavefunction(state).expectationBohr(power);
+    }
+
+    /**
+     * @param a first state
+     * @param b second state
+     * @return the radial dipole integral {@code <a|r|b>} in a0
+     */
+    public double radialDipoleBohr(State a, State b) {
+        return radialIntegralBohr(a, b, 1);
+    }
+
+    /**
+     * @param a first state
+     * @param b second state, with l differing by one
+     * @return the reduced matrix element {@code <a||d||b>} in e a0 (convention in the class comment);
+     *         0 when j and j' differ by more than one
+     * @throws RydbergException when l and l' do not differ by one, or a level is refused
+     */
+    public double reducedDipole(State a, State b) {
+        checkDipole(a, b);
+        double angular = reducedAngular(a, b);
+        return angular == 0 ? 0 : angular * radialDipoleBohr(a, b);
+    }
+
+    private static void checkDipole(State a, State b) {
+        if (Math.abs(a.l() - b.l()) != 1) {
+            throw new RydbergException(RydbergException.NOT_DIPOLE, a + " and " + b
+                    + " are not connected by an electric-dipole transition (l must change by one)");
+        }
+    }
+
+    /** The angular part of {@code <l j||d||l' j'>} in the class comment's convention. */
+    static double reducedAngular(State a, State b) {
+        int l = a.l();
+        int l2 = b.l();
+        double sixJ = WignerSymbols.sixJ(2 * l, a.twoJ(), 1, b.twoJ(), 2 * l2, 2);
+        if (sixJ == 0) {
+            return 0;
+        }
+        int phaseJ = (2 * l + 1 + b.twoJ() + 2) / 2; // l + s + j' + 1
+        double fine = ((phaseJ & 1) == 0 ? 1 : -1) * Math.sqrt((a.twoJ() + 1.0) * (b.twoJ() + 1.0)) * sixJ;
+        double orbital = ((l & 1) == 0 ? 1 : -1) * Math.sqrt((2 * l + 1.0) * (2 * l2 + 1.0))
+                * WignerSymbols.threeJ(2 * l, 2, 2 * l2, 0, 0, 0);
+        return fine * orbital;
+    }
+
+    /**
+     * @param a    first state
+     * @param twoM twice m_j of the first state
+     * @param b    second state
+     * @param twoM2 twice m_j' of the second state
+     * @param q    spherical component of the dipole operator, -1, 0 or +1
+     * @return {@code <a m| d_q |b m'>} in e a0; 0 unless {@code m = q + m'}
+     * @throws IllegalArgumentException for impossible m or q
+     * @throws RydbergException         when l and l' do not differ by one, or a level is refused
+     */
+    public double dipole(State a, int twoM, State b, int twoM2, int q) {
+        if (q < -1 || q > 1) {
+            throw new IllegalArgumentException("dipole component q must be -1, 0 or +1, got " + q);
+        }
+        checkM(a, twoM);
+        checkM(b, twoM2);
+        double threeJ = WignerSymbols.threeJ(a.twoJ(), 2, b.twoJ(), -twoM, 2 * q, twoM2);
+        if (threeJ == 0) {
+            checkDipole(a, b);
+            return 0;
+        }
+        int phase = (a.twoJ() - twoM) / 2;
+        return ((phase & 1) == 0 ? 1 : -1) * threeJ * reducedDipole(a, b);
+    }
+
+    private static void checkM(State s, int twoM) {
+        if (Math.abs(twoM) > s.twoJ() || ((twoM + s.twoJ()) & 1) != 0) {
+            throw new IllegalArgumentException("2m = " + twoM + " is not a projection of j = " + s.twoJ() + "/2 of " + s);
+        }
+    }
+
+    /**
+     * @param upper the upper state
+     * @param lower a lower state, with l differing by one
+     * @return the Einstein A coefficient of {@code upper -> lower}, s^-1 (0 when the j's do not couple)
+     * @throws IllegalArgumentException when {@code lower} is not below {@code upper}
+     * @throws RydbergException         when l and l' do not differ by one, or a level is refused
+     */
+    public double einsteinA(State upper, State lower) {
+        checkDipole(upper, lower);
+        double nu = frequencyHz(lower, upper);
+        if (!(nu > 0)) {
+            throw new IllegalArgumentException(lower + " is not below " + upper);
+        }
+        double angular = reducedAngular(lower, upper);
+        if (angular == 0) {
+            return 0;
+        }
+        double d = angular * radialDipoleBohr(lower, upper);
+        return rate(nu, d, upper.twoJ());
+    }
+
+    /** A = omega^3 |d|^2 / (3 pi eps0 hbar c^3 (2j_u+1)), d in e a0. */
+    private static double rate(double frequencyHz, double reducedEa0, int twoJUpper) {
+        double omega = 2 * Math.PI * frequencyHz;
+        double d = reducedEa0 * DIPOLE_AU;
+        return omega * omega * omega * d * d / (3 * Math.PI * EPSILON_0 * HBAR * C * C * C * (twoJUpper + 1));
+    }
+
+    /**
+     * Every electric-dipole decay channel of a state to the levels below it (l' = l +- 1, all n'
+     * from the lowest of each series, measured low-lying levels included).
+     *
+     * @param state the decaying state
+     * @return the channels with their Einstein A, s^-1, in order of l', j', n'
+     * @throws RydbergException when a level on the way is refused (a gap in the data)
+     */
+    public List<DecayChannel> spontaneousChannels(State state) {
+        double e = energyPerCm(state);
+        RadialWavefunction upper = wavefunction(state);
+        List<DecayChannel> channels = new ArrayList<>();
+        for (State lower : neighbours(state, state.n() + 1)) {
+            Level level = level(lower);
+            if (level.energyPerCm() >= e) {
+                continue;
+            }
+            double angular = reducedAngular(lower, state);
+            if (angular == 0) {
+                continue;
+            }
+            double nu = (e - level.energyPerCm()) * 100 * C;
+            double d = angular * RadialWavefunction.overlap(wavefunction(lower), upper, 1) * lengthScale();
+            channels.add(new DecayChannel(state, lower, nu, rate(nu, d, state.twoJ())));
+        }
+        return channels;
+    }
+
+    /** States with l' = l +- 1 (and j' coupled to j) from the lowest n' up to nMax inclusive. */
+    private List<State> neighbours(State state, int nMax) {
+        List<State> out = new ArrayList<>();
+        for (int l2 = state.l() - 1; l2 <= state.l() + 1; l2 += 2) {
+            if (l2 < 0) {
+                continue;
+            }
+            for (int twoJ2 = 2 * l2 - 1; twoJ2 <= 2 * l2 + 1; twoJ2 += 2) {
+                if (twoJ2 < 1 || Math.abs(twoJ2 - state.twoJ()) > 2) {
+                    continue;
+                }
+                for (int n2 = Math.max(lowestN(l2), l2 + 1); n2 <= nMax; n2++) {
+                    out.add(new State(n2, l2, twoJ2));
+                }
+            }
+        }
+        return out;
+    }
+
+    /**
+     * @param state a state
+     * @return the total spontaneous decay rate (sum of {@link #spontaneousChannels}), s^-1
+     */
+    public double spontaneousRate(State state) {
+        double sum = 0;
+        for (DecayChannel c : spontaneousChannels(state)) {
+            sum += c.ratePerSecond();
+        }
+        return sum;
+    }
+
+    /**
+     * @param state a state above the ground level
+     * @return the radiative lifetime at 0 K, {@code 1 / sum A}, seconds
+     */
+    public double radiativeLifetime(State state) {
+        double rate = spontaneousRate(state);
+        if (!(rate > 0)) {
+            throw new IllegalArgumentException(state + " has no dipole decay channel (is it the ground state?)");
+        }
+        return 1 / rate;
+    }
+
+    /**
+     * Black-body-induced transition rates out of a state, to every bound neighbour up and down
+     * (l' = l +- 1, n' up to 2n + 10): stimulated emission {@code A(u -> k) nbar} and absorption
+     * {@code A(k -> u) nbar (2j_k + 1) / (2j_u + 1)}, with the Planck occupation
+     * {@code nbar = 1 / (exp(h nu / k T) - 1)} (T. F. Gallagher, Rydberg Atoms (1994), ch. 4;
+     * I. I. Beterov et al., Phys. Rev. A 79, 052504 (2009), eq. 2). Black-body photoionisation
+     * (the continuum) is not included.
+     *
+     * @param state        the state
+     * @param temperatureK the radiation temperature, K; finite, not negative (0 gives no channels)
+     * @return the channels with their rates, s^-1
+     */
+    public List<DecayChannel> blackbodyChannels(State state, double temperatureK) {
+        if (!(temperatureK >= 0) || Double.isInfinite(temperatureK)) {
+            throw new IllegalArgumentException("temperature must be finite and >= 0 K, got " + temperatureK);
+        }
+        List<DecayChannel> channels = new ArrayList<>();
+        if (temperatureK == 0) {
+            return channels;
+        }
+        double e = energyPerCm(state);
+        RadialWavefunction self = wavefunction(state);
+        for (State other : neighbours(state, 2 * state.n() + 10)) {
+            double angular = reducedAngular(state, other);
+            if (angular == 0) {
+                continue;
+            }
+            Level level = level(other);
+            double nu = Math.abs(level.energyPerCm() - e) * 100 * C;
+            if (nu == 0) {
+                continue;
+            }
+            double d = angular * RadialWavefunction.overlap(self, wavefunction(other), 1) * lengthScale();
+            double occupation = 1 / Math.expm1(H * nu / (PhysicalConstants.K * temperatureK));
+            double rate = level.energyPerCm() < e ? rate(nu, d, state.twoJ()) * occupation
+                    : rate(nu, d, other.twoJ()) * occupation * (other.twoJ() + 1.0) / (state.twoJ() + 1.0);
+            channels.add(new DecayChannel(state, other, nu, rate));
+        }
+        return channels;
+    }
+
+    /**
+     * @param state        the state
+     * @param temperatureK the radiation temperature, K
+     * @return the total black-body-induced rate to bound states, s^-1
+     */
+    public double blackbodyRate(State state, double temperatureK) {
+        double sum = 0;
+        for (DecayChannel c : blackbodyChannels(state, temperatureK)) {
+            sum += c.ratePerSecond();
+        }
+        return sum;
+    }
+
+    /**
+     * @param state        a state above the ground level
+     * @param temperatureK the radiation temperature, K
+     * @return {@code 1 / (sum A + black-body rate)}, seconds (black-body photoionisation not included)
+     */
+    public double effectiveLifetime(State state, double temperatureK) {
+        return 1 / (spontaneousRate(state) + blackbodyRate(state, temperatureK));
+    }
+
+    @Override
+    public String toString() {
+        return "AlkaliAtom[" + species() + ", " + defects.info().id() + ", " + measuredList.size() + " measured levels"
+                + (model == null ? ", Coulomb approximation]" : ", model potential]");
+    }
+}

@@ -1,0 +1,53 @@
+package org.ritzwerk.engine.rydberg;
+
+import java.util.Objects;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * Two-photon ladder excitation {@code lower -> intermediate -> upper} with the two laser
+ * frequencies on resonance (no detuning, no light shifts, no hyperfine structure).
+ *
+ * @param lower        the start (usually the ground state)
+ * @param intermediate the intermediate state
+ * @param upper        the Rydberg state
+ * @param firstHz      frequency of the first photon, Hz
+ * @param secondHz     frequency of the second photon, Hz
+ */
+public record LadderExcitation(State lower, State intermediate, State upper, double firstHz, double secondHz) {
+
+    /** Validates the components. */
+    public LadderExcitation {
+        Objects.requireNonNull(lower, "lower");
+        Objects.requireNonNull(intermediate, "intermediate");
+        Objects.requireNonNull(upper, "upper");
+    }
+
+    /** @return the vacuum wavelength of the first photon, metres */
+    public double firstVacuumMetres() {
+        return PhysicalConstants.C / firstHz;
+    }
+
+    /** @return the vacuum wavelength of the second photon, metres */
+    public double secondVacuumMetres() {
+        return PhysicalConstants.C / secondHz;
+    }
+
+    /**
+     * @param medium vacuum or air under a refractive-index model
+     * @return the first photon's wavelength in that medium, metres
+     * @throws org.ritzwerk.medium.MediumException outside the air model's validity range
+     */
+    public double firstMetres(Medium medium) {
+        return medium.fromVacuum(firstVacuumMetres());
+    }
+
+    /**
+     * @param medium vacuum or air under a refractive-index model
+     * @return the second photon's wavelength in that medium, metres
+     * @throws org.ritzwerk.medium.MediumException outside the air model's validity range
+     */
+    public double secondMetres(Medium medium) {
+        return medium.fromVacuum(secondVacuumMetres());
+    }
+}

@@ -1,0 +1,89 @@
+package org.ritzwerk.engine.rydberg;
+
+import java.util.Locale;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * A fine-structure state {@code n l j} of a one-valence-electron atom. Immutable; equality is
+ * exact.
+ *
+ * @param n    principal quantum number, at least 1
+ * @param l    orbital quantum number, 0 to n - 1
+ * @param twoJ twice j: 2l - 1 or 2l + 1 (1 for l = 0)
+ */
+public record State(int n, int l, int twoJ) {
+
+    private static final String LETTERS = "spdfghiklmnoqrtuv";
+    private static final Pattern TEXT = Pattern.compile("(\\d{1,4})([a-z])(\\d{1,3})/2");
+
+    /** Validates the quantum numbers. */
+    public State {
+        if (n < 1) {
+            throw new IllegalArgumentException("principal quantum number n must be >= 1, got " + n);
+        }
+        if (l < 0 || l >= n) {
+            throw new IllegalArgumentException("orbital quantum number l must be 0 to n - 1 = " + (n - 1) + ", got " + l);
+        }
+        if (twoJ < 1 || Math.abs(twoJ - 2 * l) != 1) {
+            throw new IllegalArgumentException("j must be l +- 1/2 (and 1/2 for l = 0); got l = " + l + ", 2j = " + twoJ);
+        }
+    }
+
+    /**
+     * @param n    principal quantum number
+     * @param l    orbital quantum number
+     * @param twoJ twice j
+     * @return the state
+     * @throws IllegalArgumentException naming the bad quantum number
+     */
+    public static State of(int n, int l, int twoJ) {
+        return new State(n, l, twoJ);
+    }
+
+    /**
+     * @param text the form {@link #label()} writes, e.g. {@code 5s1/2}, {@code 43d5/2}, {@code 60p3/2}
+     * @return the state
+     * @throws IllegalArgumentException when the text has another form or impossible quantum numbers
+     */
+    public static State parse(String text) {
+        Matcher m = TEXT.matcher(text.strip().toLowerCase(Locale.ROOT));
+        if (!m.matches() || LETTERS.indexOf(m.group(2).charAt(0)) < 0) {
+            throw new IllegalArgumentException("cannot read state '" + text + "'; expected n, the letter of l and j, "
+                    + "e.g. 5s1/2, 43d5/2, 60p3/2");
+        }
+        return new State(Integer.parseInt(m.group(1)), LETTERS.indexOf(m.group(2).charAt(0)),
+                Integer.parseInt(m.group(3)));
+    }
+
+    /** @return j as a number */
+    public double j() {
+        return twoJ / 2.0;
+    }
+
+    /**
+     * @return e.g. {@code 43d5/2}, the form {@link #parse(String)} reads; for l beyond the letters
+     *         (l &gt;= 17) {@code 60(l=40)81/2}
+     */
+    public String label() {
+        return n + letter(false) + twoJ + "/2";
+    }
+
+    /** @return spectroscopic notation, e.g. {@code 43d 2D5/2} */
+    public String notation() {
+        return n + letter(false) + " 2" + letter(true) + twoJ + "/2";
+    }
+
+    private String letter(boolean upper) {
+        if (l >= LETTERS.length()) {
+            return "(l=" + l + ")";
+        }
+        char c = LETTERS.charAt(l);
+        return String.valueOf(upper ? Character.toUpperCase(c) : c);
+    }
+
+    @Override
+    public String toString() {
+        return label();
+    }
+}

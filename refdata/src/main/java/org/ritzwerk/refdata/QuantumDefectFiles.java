@@ -1,0 +1,323 @@
+package org.ritzwerk.refdata;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Set;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.Provenance;
+import org.ritzwerk.data.QuantumDefects;
+import org.ritzwerk.engine.rydberg.CorePolarizability;
+
+/**
+ * Ritzwerk's quantum-defect file format ({@code ritzwerk-quantum-defects}, version 1), CSV:
+ * <pre>
+ * # ritzwerk-quantum-defects 1
+ * # id: quantum-defects-rb-87
+ * # title: ...
+ * # species: Rb-87 I
+ * # source: the papers
+ * # provenance: published
+ * # version: 2011
+ * # limit-per-cm: 33690.804799
+ * # limit-provenance: published
+ * # limit-source: ...
+ * # core-dipole-polarizability-au: 9.116          (optional, with the next two)
+ * # core-quadrupole-polarizability-au: 38.4
+ * # core-source: ...
+ * # levels: levels-rb-87                          (optional: the id of the measured low levels)
+ * # note: ...                                     (optional)
+ * l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,read-in
+ * 0,1/2,3.1311807,0.1787,0,0,0,10,published,Mack et al. ...,...
+ * </pre>
+ * One row per series (l, j = l +- 1/2); trailing zero coefficients are dropped; the last two
+ * columns are free text and may contain commas. The mass-corrected Rydberg constant is not in
+ * the file: it is {@code R_M = R_inf / (1 + m_e / (M - m_e))} from the species' atomic mass M in
+ * the built-in nuclear data (common practice: the core is the singly charged ion). Every
+ * problem in a file is reported at once with its line. Stateless and thread-safe.
+ */
+public final class QuantumDefectFiles {
+
+    /** The format name. */
+    public static final String FORMAT = "ritzwerk-quantum-defects";
+    /** The columns, in order. */
+    public static final List<String> COLUMNS =
+            List.of("l", "j", "d0", "d2", "d4", "d6", "d8", "valid-from-n", "provenance", "source", "read-in");
+
+    private static final List<String> REQUIRED = List.of("id", "title", "species", "source", "provenance", "version",
+            "limit-per-cm", "limit-provenance", "limit-source");
+    private static final Set<String> KNOWN = Set.of("id", "title", "species", "source", "provenance", "version",
+            "limit-per-cm", "limit-provenance", "limit-source", "core-dipole-polarizability-au",
+            "core-quadrupole-polarizability-au", "core-source", "levels", "note");
+
+    /**
+     * What a file holds beyond the {@link QuantumDefects} record.
+     *
+     * @param defects  the series, limit and R_M
+     * @param core     the core polarizabilities, or null when the file gives none
+     * @param levelsId the id of the measured low levels that go with the set, or empty
+     * @param limitProvenance how the ionisation limit was obtained
+     */
+    public record Content(QuantumDefects defects, CorePolarizability core, String levelsId, Provenance limitProvenance) {
+        /** Validates the components. */
+        public Content {
+            Objects.requireNonNull(defects, "defects");
+            Objects.requireNonNull(levelsId, "levelsId");
+            Objects.requireNonNull(limitProvenance, "limitProvenance");
+        }
+    }
+
+    private QuantumDefectFiles() {
+    }
+
+    /**
+     * @param in     the bytes (UTF-8), read to the end; not closed
+     * @param source the file name, for messages
+     * @return the content
+     * @throws DataFileException with every problem found
+     */
+    public static Content read(InputStream in, String source) {
+        List<DataProblem> problems = new ArrayList<>();
+        Map<String, String> header = new LinkedHashMap<>();
+        Map<String, Integer> headerLine = new LinkedHashMap<>();
+        List<QuantumDefects.Series> series = new ArrayList<>();
+        Set<String> seen = new HashSet<>();
+        boolean formatSeen = false;
+        boolean columnsSeen = false;
+        int number = 0;
+        try (BufferedReader reader = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
+            for (String line = reader.readLine(); line != null; line = reader.readLine()) {
+                number++;
+                if (line.isBlank()) {
+                    continue;
+                }
+                if (line.startsWith("#")) {
+                    String text = line.substring(1).strip();
+                    if (number == 1) {
+                        if (!text.equals(FORMAT + " 1")) {
+                            problems.add(new DataProblem(source, number, 1, "qd.format",
+                                    "first line must be '# " + FORMAT + " 1'", line));
+                        }
+                        formatSeen = true;
+                        continue;
+                    }
+                    int colon = text.indexOf(':');
+                    if (colon < 0) {
+                        continue; // a plain comment
+                    }
+                    String key = text.substring(0, colon).strip();
+                    if (!KNOWN.contains(key)) {
+                        problems.add(new DataProblem(source, number, 3, "qd.unknown-key", "unknown header key '" + key
+                                + "'; known: " + String.join(", ", KNOWN.stream().sorted().toList()), line));
+                    } else if (header.put(key, text.substring(colon + 1).strip()) != null) {
+                        problems.add(new DataProblem(source, number, 3, "qd.duplicate-key", "header key '" + key
+                                + "' given twice", line));
+                    }
+                    headerLine.put(key, number);
+                    continue;
+                }
+                if (!columnsSeen) {
+                    columnsSeen = true;
+                    if (!line.strip().equals(String.join(",", COLUMNS))) {
+                        problems.add(new DataProblem(source, number, 1, "qd.columns", "columns must be "
+                                + String.join(",", COLUMNS), line));
+                        break;
+                    }
+                    continue;
+                }
+                row(line, number, source, series, seen, problems);
+            }
+        } catch (IOException e) {
+            throw new DataFileException(DataFileException.UNREADABLE, source, List.of(), e.getMessage());
+        }
+        if (!formatSeen) {
+            problems.add(new DataProblem(source, 1, 0, "qd.format", "empty file; expected '# " + FORMAT + " 1'", ""));
+        }
+        for (String key : REQUIRED) {
+            if (!header.containsKey(key) || header.get(key).isEmpty()) {
+                problems.add(new DataProblem(source, Math.max(1, number), 0, "qd.missing-key", "header key '" + key
+                        + "' is missing", ""));
+            }
+        }
+        if (series.isEmpty() && problems.isEmpty()) {
+            problems.add(new DataProblem(source, Math.max(1, number), 0, "qd.no-series", "no series rows", ""));
+        }
+        Content content = null;
+        if (problems.isEmpty()) {
+            content = build(header, headerLine, series, source, problems);
+        }
+        if (!problems.isEmpty()) {
+            throw new DataFileException(DataFileException.INVALID, source, problems, "");
+        }
+        return content;
+    }
+
+    private static void row(String line, int number, String source, List<QuantumDefects.Series> series,
+            Set<String> seen, List<DataProblem> problems) {
+        String[] f = line.split(",", COLUMNS.size());
+        if (f.length < COLUMNS.size()) {
+            problems.add(new DataProblem(source, number, 0, "qd.short-row", "a series row needs " + COLUMNS.size()
+                    + " fields, got " + f.length, line));
+            return;
+        }
+        int before = problems.size();
+        int l = integer(f[0], "l", line, number, source, problems);
+        int twoJ = -1;
+        String j = f[1].strip();
+        if (j.matches("\\d{1,3}/2")) {
+            twoJ = Integer.parseInt(j.substring(0, j.length() - 2));
+        } else {
+            problems.add(new DataProblem(source, number, 0, "qd.bad-j", "j must be a half-integer like 3/2, got '"
+                    + j + "'", line));
+        }
+        List<Double> coefficients = new ArrayList<>();
+        for (int i = 2; i <= 6; i++) {
+            try {
+                double value = Double.parseDouble(f[i].strip());
+                if (!Double.isFinite(value)) {
+                    throw new NumberFormatException();
+                }
+                coefficients.add(value);
+            } catch (NumberFormatException e) {
+                problems.add(new DataProblem(source, number, 0, "qd.bad-number", COLUMNS.get(i)
+                        + " is not a finite number: '" + f[i] + "'", line));
+            }
+        }
+        int validFrom = integer(f[7], "valid-from-n", line, number, source, problems);
+        try {
+            Provenance.Kind.fromId(f[8].strip());
+        } catch (IllegalArgumentException e) {
+            problems.add(new DataProblem(source, number, 0, "qd.bad-provenance", e.getMessage(), line));
+        }
+        if (problems.size() > before) {
+            return;
+        }
+        while (coefficients.size() > 1 && coefficients.get(coefficients.size() - 1) == 0) {
+            coefficients.remove(coefficients.size() - 1);
+        }
+        if (!seen.add(l + "," + twoJ)) {
+            problems.add(new DataProblem(source, number, 0, "qd.duplicate-series", "series l = " + l + ", j = "
+                    + twoJ + "/2 given twice", line));
+            return;
+        }
+        try {
+            series.add(new QuantumDefects.Series(l, twoJ, coefficients, validFrom));
+        } catch (IllegalArgumentException e) {
+            problems.add(new DataProblem(source, number, 0, "qd.bad-series", e.getMessage(), line));
+        }
+    }
+
+    private static int integer(String text, String field, String line, int number, String source,
+            List<DataProblem> problems) {
+        try {
+            return Integer.parseInt(text.strip());
+        } catch (NumberFormatException e) {
+            problems.add(new DataProblem(source, number, 0, "qd.bad-integer", field + " is not an integer: '" + text
+                    + "'", line));
+            return -1;
+        }
+    }
+
+    private static Content build(Map<String, String> header, Map<String, Integer> headerLine,
+            List<QuantumDefects.Series> series, String source, List<DataProblem> problems) {
+        Species species;
+        try {
+            species = Species.parse(header.get("species"));
+        } catch (RuntimeException e) {
+            problems.add(new DataProblem(source, headerLine.get("species"), 0, "qd.bad-species", e.getMessage(),
+                    header.get("species")));
+            return null;
+        }
+        if (species.massNumber() == 0 || species.charge() != 0) {
+            problems.add(new DataProblem(source, headerLine.get("species"), 0, "qd.bad-species",
+                    "species must be a neutral isotope such as Rb-87 I, got " + species, header.get("species")));
+            return null;
+        }
+        double limit = number(header, headerLine, "limit-per-cm", source, problems);
+        Provenance.Kind provenanceKind = kind(header, headerLine, "provenance", source, problems);
+        Provenance.Kind limitKind = kind(header, headerLine, "limit-provenance", source, problems);
+        CorePolarizability core = null;
+        boolean hasCore = header.containsKey("core-dipole-polarizability-au");
+        if (hasCore || header.containsKey("core-quadrupole-polarizability-au") || header.containsKey("core-source")) {
+            double dipole = number(header, headerLine, "core-dipole-polarizability-au", source, problems);
+            double quadrupole = number(header, headerLine, "core-quadrupole-polarizability-au", source, problems);
+            String coreSource = header.getOrDefault("core-source", "");
+            try {
+                core = new CorePolarizability(dipole, quadrupole, coreSource);
+            } catch (IllegalArgumentException e) {
+                problems.add(new DataProblem(source, headerLine.getOrDefault("core-dipole-polarizability-au", 1), 0,
+                        "qd.bad-core", e.getMessage(), ""));
+            }
+        }
+        if (!problems.isEmpty()) {
+            return null;
+        }
+        double rydberg;
+        try {
+            rydberg = rydbergPerCm(species);
+        } catch (ReferenceDataException e) {
+            problems.add(new DataProblem(source, headerLine.get("species"), 0, "qd.no-mass", e.getMessage(),
+                    header.get("species")));
+            return null;
+        }
+        try {
+            DataSetInfo info = new DataSetInfo(header.get("id"), DataKind.QUANTUM_DEFECTS, header.get("title"),
+                    header.get("version"), new Provenance(provenanceKind, header.get("source")), List.of(species));
+            QuantumDefects defects = new QuantumDefects(info, species, limit, rydberg, series);
+            return new Content(defects, core, header.getOrDefault("levels", ""),
+                    new Provenance(limitKind, header.get("limit-source")));
+        } catch (IllegalArgumentException e) {
+            problems.add(new DataProblem(source, headerLine.getOrDefault("id", 1), 0, "qd.bad-set", e.getMessage(), ""));
+            return null;
+        }
+    }
+
+    /**
+     * @param species a neutral isotope in the built-in nuclear data
+     * @return {@code R_M = R_inf / (1 + m_e / (M - m_e))} in cm^-1, M the atomic mass (AME2020)
+     * @throws ReferenceDataException when the isotope is not in the nuclear data
+     */
+    public static double rydbergPerCm(Species species) {
+        double massU = NuclearData.builtIn().isotope(species).atomicMass();
+        double electronU = PhysicalConstants.ELECTRON_MASS.value() / PhysicalConstants.ATOMIC_MASS_CONSTANT.value();
+        return PhysicalConstants.RYDBERG.value() / 100 / (1 + electronU / (massU - electronU));
+    }
+
+    private static double number(Map<String, String> header, Map<String, Integer> lines, String key, String source,
+            List<DataProblem> problems) {
+        String text = header.get(key);
+        try {
+            double value = Double.parseDouble(text == null ? "" : text);
+            if (Double.isFinite(value)) {
+                return value;
+            }
+        } catch (NumberFormatException e) {
+            // reported below
+        }
+        problems.add(new DataProblem(source, lines.getOrDefault(key, 1), 0, "qd.bad-number", key
+                + " is not a finite number: '" + text + "'", text == null ? "" : text));
+        return Double.NaN;
+    }
+
+    private static Provenance.Kind kind(Map<String, String> header, Map<String, Integer> lines, String key,
+            String source, List<DataProblem> problems) {
+        try {
+            return Provenance.Kind.fromId(header.get(key));
+        } catch (IllegalArgumentException e) {
+            problems.add(new DataProblem(source, lines.getOrDefault(key, 1), 0, "qd.bad-provenance", e.getMessage(),
+                    header.get(key)));
+            return Provenance.Kind.PUBLISHED;
+        }
+    }
+}

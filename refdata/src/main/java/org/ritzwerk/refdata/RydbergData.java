@@ -1,0 +1,275 @@
+package org.ritzwerk.refdata;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStreamReader;
+import java.nio.charset.StandardCharsets;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import java.util.stream.Collectors;
+import org.ritzwerk.atom.Elements;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.QuantumDefects;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.MeasuredLevel;
+import org.ritzwerk.engine.rydberg.ModelPotential;
+import org.ritzwerk.engine.rydberg.State;
+import org.ritzwerk.quantity.Unit;
+
+/**
+ * Ritzwerk's built-in Rydberg data for Li-7, Na-23, K-39, Rb-85, Rb-87 and Cs-133: per isotope a
+ * quantum-defect set ({@code quantum-defects-rb-87}, format {@link QuantumDefectFiles}) and the
+ * measured levels below its validity ({@code levels-rb-87}, format {@link LevelListFiles}), both
+ * under {@code rydberg/} with the script {@code make_rydberg_data.py} that wrote them and
+ * {@code fit-residuals.txt}, the comparison that chose each series' valid-from-n; and the
+ * Marinescu et al. (1994) model potentials ({@code model-potentials.csv}). The file
+ * headers name the paper of every series, the public copy each number was read in, and which
+ * values are from memory (the Rb-85 ionisation limit).
+ *
+ * <p>Typical use: {@code AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));}
+ *
+ * <p>The files are read once, on first use of {@link #builtIn()}; the object is immutable and
+ * thread-safe.
+ */
+public final class RydbergData {
+
+    /** Isotope file stems, in Z order. */
+    static final List<String> STEMS = List.of("li-7", "na-23", "k-39", "rb-85", "rb-87", "cs-133");
+
+    private static final Pattern LABEL = Pattern.compile("(\\d{1,3})([spdf]) 2([SPDF])(\\d{1,2})/2");
+    private static volatile RydbergData builtIn;
+
+    /** One isotope's sets. */
+    private record Entry(QuantumDefectFiles.Content content, LevelList levels) {
+    }
+
+    private final Map<Species, Entry> entries;
+    private final Map<Integer, ModelPotential> potentials;
+
+    private RydbergData(Map<Species, Entry> entries, Map<Integer, ModelPotential> potentials) {
+        this.entries = entries;
+        this.potentials = potentials;
+    }
+
+    /** @return the built-in data, read on first use (thread-safe) */
+    public static RydbergData builtIn() {
+        RydbergData data = builtIn;
+        if (data == null) {
+            synchronized (RydbergData.class) {
+                data = builtIn;
+                if (data == null) {
+                    data = load();
+                    builtIn = data;
+                }
+            }
+        }
+        return data;
+    }
+
+    private static RydbergData load() {
+        Map<Species, Entry> entries = new LinkedHashMap<>();
+        for (String stem : STEMS) {
+            QuantumDefectFiles.Content content;
+            String qd = "rydberg/quantum-defects-" + stem + ".csv";
+            try (InputStream in = open(qd)) {
+                content = QuantumDefectFiles.read(in, qd);
+            } catch (IOException e) {
+                throw new UncheckedIOException(qd + ": " + e.getMessage(), e);
+            }
+            String lv = "rydberg/" + content.levelsId() + ".csv";
+            LevelList levels;
+            try (InputStream in = open(lv)) {
+                levels = LevelListFiles.read(in, lv);
+            } catch (IOException e) {
+                throw new UncheckedIOException(lv + ": " + e.getMessage(), e);
+            }
+            if (levels.unit() != Unit.PER_CENTIMETRE) {
+                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, lv + ": energies must be in cm-1");
+            }
+            measuredLevels(levels); // checks every label now
+            entries.put(content.defects().species(), new Entry(content, levels));
+        }
+        return new RydbergData(Collections.unmodifiableMap(entries), readPotentials());
+    }
+
+    /** Reads {@code rydberg/model-potentials.csv}: element,l,alpha_c,z,a1,a2,a3,a4,rc with l = 0, 1, 2, ... in order. */
+    private static Map<Integer, ModelPotential> readPotentials() {
+        String resource = "rydberg/model-potentials.csv";
+        Map<Integer, List<ModelPotential.Parameters>> sets = new LinkedHashMap<>();
+        Map<Integer, double[]> heads = new LinkedHashMap<>();
+        String source = null;
+        try (BufferedReader reader = new BufferedReader(new InputStreamReader(open(resource), StandardCharsets.UTF_8))) {
+            int number = 0;
+            boolean header = true;
+            for (String line = reader.readLine(); line != null; line = reader.readLine()) {
+                number++;
+                if (line.startsWith("# source:")) {
+                    source = line.substring("# source:".length()).strip();
+                }
+                if (line.startsWith("#") || line.isBlank()) {
+                    continue;
+                }
+                if (header) {
+                    header = false;
+                    continue;
+                }
+                String[] f = line.split(",");
+                try {
+                    int z = Elements.atomicNumber(f[0]).orElseThrow(() -> new IllegalArgumentException("unknown element " + f[0]));
+                    int l = Integer.parseInt(f[1]);
+                    List<ModelPotential.Parameters> list = sets.computeIfAbsent(z, k -> new ArrayList<>());
+                    if (l != list.size() || f.length != 9) {
+                        throw new IllegalArgumentException("expected l = " + list.size() + " and 9 fields");
+                    }
+                    heads.put(z, new double[] {Double.parseDouble(f[2]), Double.parseDouble(f[3])});
+                    list.add(new ModelPotential.Parameters(Double.parseDouble(f[4]), Double.parseDouble(f[5]),
+                            Double.parseDouble(f[6]), Double.parseDouble(f[7]), Double.parseDouble(f[8])));
+                } catch (RuntimeException e) {
+                    throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, resource + ":" + number + ": "
+                            + e.getMessage() + "\n    " + line);
+                }
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
+        }
+        Map<Integer, ModelPotential> out = new LinkedHashMap<>();
+        for (Map.Entry<Integer, List<ModelPotential.Parameters>> e : sets.entrySet()) {
+            double[] head = heads.get(e.getKey());
+            out.put(e.getKey(), new ModelPotential((int) head[1], head[0], e.getValue(), source == null ? resource
+                    : source));
+        }
+        return Collections.unmodifiableMap(out);
+    }
+
+    private static InputStream open(String resource) {
+        InputStream in = RydbergData.class.getResourceAsStream(resource);
+        if (in == null) {
+            throw new IllegalStateException("built-in data file missing from the jar: " + resource);
+        }
+        return in;
+    }
+
+    /** @return the isotopes covered, e.g. Rb-87 I; immutable */
+    public List<Species> species() {
+        return List.copyOf(entries.keySet());
+    }
+
+    /** @return what every set is (quantum defects and level tables), for the provider */
+    List<DataSetInfo> infos() {
+        List<DataSetInfo> infos = new ArrayList<>();
+        for (Entry e : entries.values()) {
+            infos.add(e.content().defects().info());
+            infos.add(e.levels().info());
+        }
+        return infos;
+    }
+
+    /** @return the sets by id */
+    Map<String, Object> byId() {
+        Map<String, Object> sets = new LinkedHashMap<>();
+        for (Entry e : entries.values()) {
+            sets.put(e.content().defects().info().id(), e.content().defects());
+            sets.put(e.levels().info().id(), e.levels());
+        }
+        return sets;
+    }
+
+    private Entry entry(Species species) {
+        Species key = species;
+        if (species.massNumber() == 0) {
+            int a = NuclearData.builtIn().defaultMassNumber(species.z()).orElse(0);
+            key = new Species(species.z(), a, species.charge());
+        }
+        Entry entry = entries.get(key);
+        if (entry == null) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no built-in Rydberg data for "
+                    + species + "; available: " + entries.keySet().stream().map(Species::notation)
+                            .collect(Collectors.joining(", ")));
+        }
+        return entry;
+    }
+
+    /**
+     * @param species a neutral alkali isotope (without mass number: the most abundant one, e.g. Rb-85)
+     * @return its quantum-defect set
+     * @throws ReferenceDataException when the species is not covered
+     */
+    public QuantumDefectFiles.Content quantumDefects(Species species) {
+        return entry(species).content();
+    }
+
+    /**
+     * @param species a neutral alkali isotope (without mass number: the most abundant one)
+     * @return its measured low-lying levels as tabulated
+     * @throws ReferenceDataException when the species is not covered
+     */
+    public LevelList levels(Species species) {
+        return entry(species).levels();
+    }
+
+    /**
+     * @param species a neutral alkali isotope (without mass number: the most abundant one)
+     * @return the engine's model of that atom: the quantum defects, the measured levels and the core
+     *         polarizabilities of the built-in data
+     * @throws ReferenceDataException when the species is not covered
+     */
+    public AlkaliAtom atom(Species species) {
+        Entry entry = entry(species);
+        return AlkaliAtom.of(entry.content().defects(), measuredLevels(entry.levels()), entry.content().core());
+    }
+
+    /**
+     * @param species a neutral alkali atom (any isotope)
+     * @return the Marinescu et al. (1994) core model potential of the element, for
+     *         {@link AlkaliAtom#withModelPotential}
+     * @throws ReferenceDataException when the element has none in the built-in data
+     */
+    public ModelPotential modelPotential(Species species) {
+        ModelPotential potential = potentials.get(species.z());
+        if (potential == null || species.charge() != 0) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no built-in model potential for "
+                    + species + "; available for Li, Na, K, Rb, Cs");
+        }
+        return potential;
+    }
+
+    /**
+     * @param levels a level table in cm^-1 whose labels read like {@code 5p 2P3/2} (n, l letter s to f,
+     *               2, the capital letter, j)
+     * @return the levels as the engine takes them, each with the table's citation as source
+     * @throws ReferenceDataException naming the first label that does not read
+     */
+    public static List<MeasuredLevel> measuredLevels(LevelList levels) {
+        if (levels.unit() != Unit.PER_CENTIMETRE) {
+            throw new IllegalArgumentException("measured levels must be in cm-1, got " + levels.unit().symbol());
+        }
+        List<MeasuredLevel> out = new ArrayList<>();
+        String source = levels.info().id() + " (" + levels.info().provenance().render() + ")";
+        for (int i = 0; i < levels.size(); i++) {
+            Matcher m = LABEL.matcher(levels.label(i));
+            if (!m.matches() || !m.group(3).equals(m.group(2).toUpperCase(java.util.Locale.ROOT))) {
+                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, levels.info().id() + ": level "
+                        + "label '" + levels.label(i) + "' does not read as n, l and j (e.g. 5p 2P3/2)");
+            }
+            State state;
+            try {
+                state = State.of(Integer.parseInt(m.group(1)), "spdf".indexOf(m.group(2).charAt(0)),
+                        Integer.parseInt(m.group(4)));
+            } catch (IllegalArgumentException e) {
+                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, levels.info().id() + ": level "
+                        + "label '" + levels.label(i) + "': " + e.getMessage());
+            }
+            out.add(new MeasuredLevel(state, levels.energy(i), source));
+        }
+        return out;
+    }
+}

@@ -1,0 +1,40 @@
+package org.ritzwerk.refdata;
+
+import java.util.List;
+import org.ritzwerk.data.DataSet;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.Origin;
+import org.ritzwerk.data.ReferenceDataProvider;
+
+/**
+ * The built-in Rydberg data ({@link RydbergData}) as a provider: quantum-defect sets
+ * {@code quantum-defects-<atom>} and measured low levels {@code levels-<atom>} for Li-7, Na-23,
+ * K-39, Rb-85, Rb-87 and Cs-133. Thread-safe; the files are read on first use.
+ */
+public final class RydbergProvider implements ReferenceDataProvider {
+
+    @Override
+    public String id() {
+        return "ritzwerk-rydberg";
+    }
+
+    @Override
+    public Origin origin() {
+        return Origin.BUILT_IN;
+    }
+
+    @Override
+    public List<DataSetInfo> dataSets() {
+        return RydbergData.builtIn().infos();
+    }
+
+    @Override
+    public DataSet load(String dataSetId) {
+        Object set = RydbergData.builtIn().byId().get(dataSetId);
+        if (set == null) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no Rydberg set '" + dataSetId
+                    + "'; known: " + String.join(", ", RydbergData.builtIn().byId().keySet()));
+        }
+        return (DataSet) set;
+    }
+}

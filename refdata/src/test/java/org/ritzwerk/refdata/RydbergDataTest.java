@@ -1,0 +1,114 @@
+package org.ritzwerk.refdata;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.InputStream;
+import java.util.List;
+import java.util.stream.Collectors;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.Provenance;
+import org.ritzwerk.data.QuantumDefects;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.LevelOrigin;
+import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.engine.rydberg.State;
+
+/** The built-in Rydberg data: what the provider offers, how the files read, and how broken files are refused. */
+class RydbergDataTest {
+
+    private static final List<String> ATOMS = List.of("li-7", "na-23", "k-39", "rb-85", "rb-87", "cs-133");
+
+    @Test
+    void everyIsotopeHasAQuantumDefectSetAndItsMeasuredLevels() {
+        DataRegistry registry = DataRegistry.builtIn();
+        for (String atom : ATOMS) {
+            QuantumDefects set = (QuantumDefects) registry.load("quantum-defects-" + atom);
+            LevelList levels = (LevelList) registry.load("levels-" + atom);
+            assertEquals(7, set.series().size(), atom);
+            for (int l = 0; l <= 3; l++) {
+                int ll = l;
+                assertEquals(l == 0 ? 1 : 2, set.series().stream().filter(s -> s.l() == ll).count(), atom + " l=" + l);
+            }
+            assertEquals(Provenance.Kind.PUBLISHED, set.info().provenance().kind());
+            assertFalse(set.info().provenance().detail().isBlank());
+            assertEquals(0.0, levels.energy(0), 0.0, atom + ": the first level is the ground state");
+            assertTrue(levels.size() >= 7, atom);
+        }
+        assertEquals(List.of("quantum-defects-rb-85", "quantum-defects-rb-87"),
+                registry.find(DataKind.QUANTUM_DEFECTS, Species.parse("Rb I")).stream().map(l -> l.info().id())
+                        .collect(Collectors.toList()));
+        assertEquals("ritzwerk-rydberg", registry.find("levels-cs-133").orElseThrow().providerId());
+        assertThrows(ReferenceDataException.class, () -> new RydbergProvider().load("quantum-defects-fr-223"));
+    }
+
+    @Test
+    void rydbergConstantComesFromTheAtomicMass() {
+        // R_M = R_inf / (1 + m_e / (M - m_e)) with the AME2020 mass of Rb-87: 109736.62301604665 cm-1 in
+        // pairinteraction's quantum_defects.sql (commit 4b3609aa), computed there the same way from other
+        // editions of the constants and masses: to 2e-10 relative.
+        assertEquals(109736.62301604665, RydbergData.builtIn().quantumDefects(Species.parse("Rb-87 I")).defects()
+                .rydbergPerCm(), 2e-5);
+        // Cs-133: 109736.8627339 cm-1 (Deiglmayr et al. 2016 as quoted in pairinteraction): to 1e-9 relative
+        assertEquals(109736.8627339, QuantumDefectFiles.rydbergPerCm(Species.parse("Cs-133 I")), 1e-4);
+    }
+
+    @Test
+    void withoutAMassNumberTheMostAbundantIsotopeIsMeant() {
+        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb I"));
+        assertEquals(new Species(37, 85, 0), rb.species());
+        assertEquals(List.of("Li-7 I", "Na-23 I", "K-39 I", "Rb-85 I", "Rb-87 I", "Cs-133 I"),
+                RydbergData.builtIn().species().stream().map(Species::notation).collect(Collectors.toList()));
+        ReferenceDataException missing = assertThrows(ReferenceDataException.class,
+                () -> RydbergData.builtIn().atom(Species.parse("Fe I")));
+        assertEquals(ReferenceDataException.UNKNOWN_DATA_SET, missing.code());
+    }
+
+    @Test
+    void measuredLevelsAreUsedBelowEachSeriesValidityAndTheFitAbove() {
+        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        QuantumDefects set = rb.quantumDefects();
+        for (QuantumDefects.Series series : set.series()) {
+            for (int n = rb.lowestN(series.l()); n < series.validFromN(); n++) {
+                assertEquals(LevelOrigin.MEASURED, rb.level(n, series.l(), series.twoJ()).origin(), n + " " + series);
+            }
+            assertEquals(LevelOrigin.QUANTUM_DEFECT_FIT, rb.level(series.validFromN() + 1, series.l(), series.twoJ())
+                    .origin());
+        }
+        assertEquals(State.of(5, 0, 1), rb.groundState());
+        assertEquals(LevelOrigin.CORE_POLARIZATION, rb.level(40, 5, 11).origin());
+        RydbergException core = assertThrows(RydbergException.class, () -> rb.level(4, 1, 3));
+        assertEquals(RydbergException.NO_SUCH_STATE, core.code());
+        // Na: the lowest member of every series is measured even where the fit would reach it
+        AlkaliAtom na = RydbergData.builtIn().atom(Species.parse("Na-23 I"));
+        assertEquals(LevelOrigin.MEASURED, na.level(3, 0, 1).origin());
+        assertEquals(0.0, na.energyPerCm(State.of(3, 0, 1)), 0.0);
+    }
+
+    @Test
+    void aFileWithoutItsLimitIsRefusedNamingTheKey() {
+        DataFileException e = assertThrows(DataFileException.class, () -> read("quantum-defects-missing-limit.csv"));
+        assertEquals(DataFileException.INVALID, e.code());
+        assertEquals(List.of("qd.missing-key"), e.problems().stream().map(DataProblem::code).collect(Collectors.toList()));
+        assertTrue(e.getMessage().contains("limit-per-cm"), e.getMessage());
+    }
+
+    @Test
+    void everyBadRowIsReportedWithItsLine() {
+        DataFileException e = assertThrows(DataFileException.class, () -> read("quantum-defects-bad-rows.csv"));
+        assertEquals(List.of("qd.bad-j:13", "qd.bad-number:14", "qd.duplicate-series:15", "qd.bad-series:16",
+                "qd.bad-provenance:17"), e.problems().stream().map(p -> p.code() + ":" + p.line())
+                        .collect(Collectors.toList()));
+    }
+
+    private static QuantumDefectFiles.Content read(String name) throws Exception {
+        try (InputStream in = RydbergDataTest.class.getResourceAsStream("/rydberg/" + name)) {
+            return QuantumDefectFiles.read(in, name);
+        }
+    }
+}
