@@ -5,6 +5,8 @@ import java.util.List;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.refdata.RydbergData;
 import org.ritzwerk.refdata.NuclearData;
 import picocli.CommandLine.Option;
 
@@ -34,6 +36,44 @@ final class Ions {
 
     /** A species with its model. */
     record Ion(Species species, HydrogenLikeModel model) {
+    }
+
+    /**
+     * The species of the options: one-electron ions with their models, and neutral alkali atoms
+     * (Li, Na, K, Rb, Cs isotopes with built-in Rydberg data) with theirs.
+     *
+     * @param ions    the one-electron ions, in the order given
+     * @param alkalis the alkali atoms, in the order given
+     */
+    record Atoms(List<Ion> ions, List<AlkaliAtom> alkalis) {
+    }
+
+    /** @return the species of the options, one-electron ions and alkali atoms; at least one */
+    Atoms resolveAtoms() {
+        if (species.isEmpty()) {
+            throw new IllegalArgumentException("--species is required, e.g. --species \"H I\" or \"Rb-87 I\"");
+        }
+        List<String> oneElectron = new ArrayList<>();
+        List<AlkaliAtom> alkalis = new ArrayList<>();
+        for (String option : species) {
+            for (String text : option.split(",")) {
+                if (text.isBlank()) {
+                    throw new IllegalArgumentException("--species has an empty entry in '" + option + "'");
+                }
+                Species parsed = Species.parse(text);
+                if (parsed.isHydrogenLike()) {
+                    oneElectron.add(text);
+                } else if (parsed.charge() == 0 && RydbergData.builtIn().species().stream()
+                        .anyMatch(s -> s.z() == parsed.z())) {
+                    alkalis.add(RydbergData.builtIn().atom(parsed));
+                } else {
+                    throw new IllegalArgumentException(parsed.notation() + ": levels and lines cover one-electron ions "
+                            + "(H I, D I, He II, C VI, ...) and the neutral alkali atoms "
+                            + RydbergData.builtIn().species().stream().map(Species::notation).toList());
+                }
+            }
+        }
+        return new Atoms(oneElectron.isEmpty() ? List.of() : of(oneElectron, model), alkalis);
     }
 
     /**

@@ -7,25 +7,34 @@ import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.LevelTable;
 import org.ritzwerk.engine.hydrogenic.Notation;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.Level;
+import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.engine.rydberg.State;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-/** {@code ritzwerk levels}: energy levels of one-electron ions. */
+/** {@code ritzwerk levels}: energy levels of one-electron ions and alkali atoms. */
 @Command(name = "levels",
         mixinStandardHelpOptions = true,
         description = {
             "Energy levels of one-electron ions (H I, D I, He II, C VI, ... U XCII), in cm-1 above the",
             "ground state, under a chosen model: bohr (reduced mass), dirac (fine structure and",
             "recoil), qed (plus the leading Lamb shift and nuclear size), hyperfine (plus s-level",
-            "hyperfine structure). Nuclear data from the built-in set (AME2020 masses, ...)."
+            "hyperfine structure). Nuclear data from the built-in set (AME2020 masses, ...).",
+            "Also the neutral alkali atoms (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133): measured low",
+            "levels and quantum-defect (Rydberg-Ritz) levels up to --n-max, l <= --l-max; the model",
+            "column says where each energy comes from."
         },
         footer = {"", "Examples:",
             "  ritzwerk levels --species \"H I\" --n-max 3",
             "  ritzwerk levels --species D --model hyperfine --n-max 2 --format json",
-            "  ritzwerk levels --species \"He II\" --n-max 3 --lifetimes"})
+            "  ritzwerk levels --species \"He II\" --n-max 3 --lifetimes",
+            "  ritzwerk levels --species \"Rb-87 I\" --n-max 80 --format json",
+            "  ritzwerk levels --species \"Cs I\" --n-max 40 --l-max 1 --lifetimes --temperature 300"})
 final class LevelsCommand implements Callable<Integer> {
 
     @Spec
@@ -42,6 +51,15 @@ final class LevelsCommand implements Callable<Integer> {
             description = {"Add each level's radiative lifetime from E1 decays alone: null for 1s; 2s",
                 "decays mainly by two-photon emission (0.12 s in H), which is not included."})
     boolean lifetimes;
+
+    @Option(names = "--l-max", paramLabel = "L", defaultValue = "3",
+            description = "Alkali atoms: highest orbital quantum number listed (default: ${DEFAULT-VALUE}).")
+    int lMax;
+
+    @Option(names = "--temperature", paramLabel = "K",
+            description = {"Alkali atoms with --lifetimes: also the effective lifetime with black-body",
+                "radiation at this temperature (bound states only; photoionisation left out)."})
+    Double temperature;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
@@ -64,10 +82,20 @@ final class LevelsCommand implements Callable<Integer> {
                 Table.Column.text("model", "model")));
         if (lifetimes) {
             columns.add(Table.Column.number("lifetime_s", "lifetime s", "%.5e"));
+            if (temperature != null) {
+                columns.add(Table.Column.number("effective_lifetime_s", "at T s", "%.5e"));
+            }
+        }
+        if (temperature != null && !(temperature > 0 && temperature < 1e5)) {
+            throw new IllegalArgumentException("--temperature must be between 0 and 1e5 K, got " + temperature);
+        }
+        if (lMax < 0 || lMax > 50) {
+            throw new IllegalArgumentException("--l-max must be 0 to 50, got " + lMax);
         }
         Table table = new Table(columns);
         double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
-        for (Ions.Ion ion : ions.resolve()) {
+        Ions.Atoms atoms = ions.resolveAtoms();
+        for (Ions.Ion ion : atoms.ions()) {
             LevelTable levels = ion.model().levels(nMax);
             double ground = Double.POSITIVE_INFINITY;
             for (int i = 0; i < levels.size(); i++) {
@@ -77,14 +105,63 @@ final class LevelsCommand implements Callable<Integer> {
             for (int i = 0; i < levels.size(); i++) {
                 Object[] row = {ion.species().notation(), levels.label(i), levels.n(i), levels.l(i),
                     Notation.half(levels.twoJ(i)), levels.twoF(i) < 0 ? null : Notation.half(levels.twoF(i)), levels.statisticalWeight(i),
-                    (levels.energy(i) - ground) / hcPerCm, ion.model().tier().id(), null};
+                    (levels.energy(i) - ground) / hcPerCm, ion.model().tier().id(), null, null};
                 if (lifetimes) {
                     row[9] = lines.lifetime(levels.n(i), levels.l(i), levels.twoJ(i));
                 }
-                table.add(lifetimes ? row : java.util.Arrays.copyOf(row, 9));
+                table.add(java.util.Arrays.copyOf(row, columns.size()));
             }
+        }
+        for (AlkaliAtom atom : atoms.alkalis()) {
+            addAlkali(table, atom, columns.size());
         }
         table.write(spec.commandLine().getOut(), format);
         return 0;
+    }
+
+    /** The alkali atom's levels, n up to --n-max and l up to --l-max, lowest first. */
+    private void addAlkali(Table table, AlkaliAtom atom, int columns) {
+        int skipped = 0;
+        String firstSkipped = null;
+        Progress progress = Progress.on(spec.commandLine().getErr(), "levels: " + atom.species().notation()
+                + (lifetimes ? " lifetimes" : ""));
+        for (int n = 1; n <= nMax; n++) {
+            for (int l = 0; l <= Math.min(lMax, n - 1); l++) {
+                for (int twoJ = 2 * l - 1; twoJ <= 2 * l + 1; twoJ += 2) {
+                    if (twoJ < 1) {
+                        continue;
+                    }
+                    State state = State.of(n, l, twoJ);
+                    if (n < atom.lowestN(l)) {
+                        continue; // filled by the core: no such level
+                    }
+                    Level level;
+                    try {
+                        level = atom.level(state);
+                    } catch (RydbergException e) {
+                        skipped++;
+                        firstSkipped = firstSkipped == null ? state.notation() : firstSkipped;
+                        continue;
+                    }
+                    Object[] row = {atom.species().notation(), state.notation(), n, l, Notation.half(twoJ), null,
+                        twoJ + 1, level.energyPerCm(), level.origin().name().toLowerCase(java.util.Locale.ROOT)
+                        .replace('_', '-'), null, null};
+                    if (lifetimes) {
+                        row[9] = state.equals(atom.groundState()) ? null : atom.radiativeLifetime(state);
+                        if (temperature != null && row[9] != null) {
+                            row[10] = atom.effectiveLifetime(state, temperature);
+                        }
+                    }
+                    table.add(java.util.Arrays.copyOf(row, columns));
+                }
+            }
+            progress.accept((double) n / nMax);
+        }
+        if (skipped > 0) {
+            spec.commandLine().getErr().println("note: " + atom.species().notation() + ": " + skipped + " level(s) with"
+                    + " no measured energy below their quantum-defect series' validity are not listed (first: "
+                    + firstSkipped + "); they are not extrapolated");
+            spec.commandLine().getErr().flush();
+        }
     }
 }

@@ -7,6 +7,8 @@ import java.util.concurrent.Callable;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
 import org.ritzwerk.quantity.QuantityText;
@@ -17,19 +19,24 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-/** {@code ritzwerk lines}: electric-dipole lines of one-electron ions in a window, with rates. */
+/** {@code ritzwerk lines}: electric-dipole lines of one-electron ions and alkali atoms, with rates. */
 @Command(name = "lines",
         mixinStandardHelpOptions = true,
         description = {
             "Electric-dipole lines of one-electron ions between two spectral positions, with",
             "Einstein A, oscillator strength and series name: fine-structure components, or",
             "n -> n' multiplets with --multiplets. --from and --to take any unit; a wavelength",
-            "without a medium is in vacuum (write \"400 nm air\" for air)."
+            "without a medium is in vacuum (write \"400 nm air\" for air). Also the neutral alkali",
+            "atoms (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133): lines between their levels (n <= --n-max,",
+            "l <= --l-max), one --transition in detail, or a two-photon --ladder."
         },
         footer = {"", "Examples:",
             "  ritzwerk lines --species \"H I\" --from \"400 nm air\" --to \"700 nm air\" --medium air",
             "  ritzwerk lines --species \"H I,He II\" --from 4.9GHz --to 5.1GHz --n-max 200 --multiplets",
-            "  ritzwerk lines --species \"C VI\" --from \"1 nm\" --to \"5 nm\" --format json"})
+            "  ritzwerk lines --species \"C VI\" --from \"1 nm\" --to \"5 nm\" --format json",
+            "  ritzwerk lines --species \"Rb-87 I\" --from 10GHz --to 20GHz --n-max 60",
+            "  ritzwerk lines --species \"Rb-87 I\" --transition \"50d5/2 -> 51p3/2\"",
+            "  ritzwerk lines --species \"Rb-87 I\" --ladder \"5s1/2,5p3/2,60s1/2\""})
 final class LinesCommand implements Callable<Integer> {
 
     @Spec
@@ -38,11 +45,28 @@ final class LinesCommand implements Callable<Integer> {
     @Mixin
     Ions ions;
 
-    @Option(names = "--from", required = true, paramLabel = "QUANTITY", description = "One end of the window.")
+    @Option(names = "--from", paramLabel = "QUANTITY", description = "One end of the window.")
     String from;
 
-    @Option(names = "--to", required = true, paramLabel = "QUANTITY", description = "The other end of the window.")
+    @Option(names = "--to", paramLabel = "QUANTITY", description = "The other end of the window.")
     String to;
+
+    @Option(names = "--transition", paramLabel = "STATE -> STATE",
+            description = {"Alkali atoms: one transition in detail, e.g. \"50d5/2 -> 51p3/2\": frequency,",
+                "wavelengths, reduced dipole matrix element, A, f, and both states' lifetimes."})
+    String transition;
+
+    @Option(names = "--ladder", paramLabel = "S1,S2,S3",
+            description = "Alkali atoms: the two laser wavelengths of a ladder, e.g. \"5s1/2,5p3/2,60s1/2\".")
+    String ladder;
+
+    @Option(names = "--temperature", paramLabel = "K", defaultValue = "300",
+            description = "With --transition: the black-body temperature of the effective lifetimes (default: ${DEFAULT-VALUE}).")
+    double temperature;
+
+    @Option(names = "--l-max", paramLabel = "L", defaultValue = "3",
+            description = "Alkali atoms: highest orbital quantum number of the levels (default: ${DEFAULT-VALUE}).")
+    int lMax;
 
     @Option(names = "--medium", paramLabel = "MEDIUM", defaultValue = "vacuum",
             description = "Medium of the wavelength column in the table: vacuum or air (default: ${DEFAULT-VALUE}).")
@@ -63,10 +87,15 @@ final class LinesCommand implements Callable<Integer> {
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
-    /** One line of one species, for sorting across species. */
-    private record Line(String species, String model, LineTable table, int index) {
+    /** One line of one species, for sorting across species: a one-electron ion's or an alkali atom's. */
+    private record Line(String species, String model, LineTable table, int index, AlkaliLines.Line alkali) {
+
+        Line(String species, String model, LineTable table, int index) {
+            this(species, model, table, index, null);
+        }
+
         double frequency() {
-            return table.frequency(index);
+            return alkali != null ? alkali.frequency() : table.frequency(index);
         }
     }
 
@@ -79,19 +108,37 @@ final class LinesCommand implements Callable<Integer> {
             throw new IllegalArgumentException("--min-a must be a finite rate >= 0 s^-1, got " + minA);
         }
         boolean air = AxisMedium.isAir(medium);
+        Ions.Atoms atoms = ions.resolveAtoms();
+        if (transition != null || ladder != null) {
+            return single(atoms);
+        }
+        if (from == null || to == null) {
+            throw new IllegalArgumentException("give --from and --to (or, for alkali atoms, --transition or --ladder)");
+        }
+        if (lMax < 0 || lMax > 50) {
+            throw new IllegalArgumentException("--l-max must be 0 to 50, got " + lMax);
+        }
         SpectralQuantity one = QuantityText.standard().parseSpectral(from);
         SpectralQuantity two = QuantityText.standard().parseSpectral(to);
         if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {
             throw new IllegalArgumentException("--from and --to are the same position; give a window");
         }
         List<Line> found = new ArrayList<>();
-        for (Ions.Ion ion : ions.resolve()) {
+        for (Ions.Ion ion : atoms.ions()) {
             HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
             LineTable table = multiplets ? generator.multiplets(nMax, one, two) : generator.components(nMax, one, two);
             for (int i = 0; i < table.size(); i++) {
                 if (table.einsteinA(i) >= minA) {
                     found.add(new Line(ion.species().notation(), ion.model().tier().id(), table, i));
                 }
+            }
+        }
+        double lowHz = Math.min(one.toFrequency().inHertz(), two.toFrequency().inHertz());
+        double highHz = Math.max(one.toFrequency().inHertz(), two.toFrequency().inHertz());
+        for (AlkaliAtom atom : atoms.alkalis()) {
+            Progress progress = Progress.on(spec.commandLine().getErr(), "lines: " + atom.species().notation());
+            for (AlkaliLines.Line line : AlkaliLines.window(atom, lowHz, highHz, nMax, lMax, minA, progress)) {
+                found.add(new Line(atom.species().notation(), "quantum-defect", null, -1, line));
             }
         }
         found.sort(Comparator.comparingDouble(Line::frequency).reversed());
@@ -113,6 +160,18 @@ final class LinesCommand implements Callable<Integer> {
         double atomicDipole = PhysicalConstants.E * PhysicalConstants.FINE_STRUCTURE.value()
                 / (4 * Math.PI * PhysicalConstants.RYDBERG.value());
         for (Line line : found) {
+            if (line.alkali() != null) {
+                AlkaliLines.Line a = line.alkali();
+                double vacuumMetres = PhysicalConstants.C / a.frequency();
+                double airMetres = airWavelength(vacuumMetres);
+                output.add(line.species(), a.upper().notation(), a.lower().notation(),
+                        a.upper().label().replaceAll("[0-9]", "").charAt(0) + "-"
+                                + a.lower().label().replaceAll("[0-9]", "").charAt(0),
+                        (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
+                        a.frequency() / PhysicalConstants.C / 100, a.frequency(), a.einsteinA(),
+                        a.oscillatorStrength(), a.lineStrength(), line.model());
+                continue;
+            }
             LineTable t = line.table();
             int i = line.index();
             double vacuumMetres = PhysicalConstants.C / t.frequency(i);
@@ -123,6 +182,30 @@ final class LinesCommand implements Callable<Integer> {
                     t.oscillatorStrength(i), t.lineStrength(i) / (atomicDipole * atomicDipole), line.model());
         }
         output.write(spec.commandLine().getOut(), format);
+        return 0;
+    }
+
+    /** --transition or --ladder: one alkali atom's single transition or ladder. */
+    private int single(Ions.Atoms atoms) {
+        if (transition != null && ladder != null) {
+            throw new IllegalArgumentException("give --transition or --ladder, not both");
+        }
+        if (atoms.alkalis().size() != 1 || !atoms.ions().isEmpty()) {
+            throw new IllegalArgumentException((transition != null ? "--transition" : "--ladder")
+                    + " needs exactly one alkali atom in --species, e.g. \"Rb-87 I\"");
+        }
+        if (!(temperature > 0 && temperature < 1e5)) {
+            throw new IllegalArgumentException("--temperature must be between 0 and 1e5 K, got " + temperature);
+        }
+        AlkaliAtom atom = atoms.alkalis().get(0);
+        Table table;
+        if (transition != null) {
+            State[] pair = AlkaliLines.pair(transition);
+            table = AlkaliLines.transition(atom, pair[0], pair[1], temperature);
+        } else {
+            table = AlkaliLines.ladder(atom, AlkaliLines.ladder(ladder));
+        }
+        table.write(spec.commandLine().getOut(), format);
         return 0;
     }
 

@@ -40,6 +40,10 @@ class DemoTest {
         // H-beta, H-gamma and H-delta and bias both a little).
         assertEquals(DemoScenario.DISCHARGE_TEMPERATURE, r.temperature, 0.1 * DemoScenario.DISCHARGE_TEMPERATURE, report);
         assertEquals(DemoScenario.DISCHARGE_DENSITY, r.density, 0.3 * DemoScenario.DISCHARGE_DENSITY, report);
+        // Rydberg planning: 50d5/2 -> 51p3/2 of Rb-87 near 17.04 GHz (the line used in Rydberg
+        // electrometry papers; value from memory) and the second laser near 480 nm.
+        assertEquals(17.04, r.rydbergMicrowaveGhz.get(1), 0.05, report);
+        assertEquals(480.0, r.rydbergSecondLaserNm.get(1), 0.5, report);
         for (String name : new String[] {"neon-lamp.csv", "calibration.json", "calibration-residuals.png",
             "discharge.csv", "discharge.png"}) {
             assertTrue(Files.size(dir.resolve("out").resolve(name)) > 100, name);

@@ -1,0 +1,108 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.State;
+import org.ritzwerk.refdata.RydbergData;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/** {@code levels} and {@code lines} on alkali atoms, their JSON checked against the library. */
+class AlkaliCommandsTest {
+
+    private static final JsonMapper JSON = JsonMapper.builder().build();
+
+    @Test
+    void levelsOfRubidiumCarryTheIssueFields() {
+        CliTest.Run run = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "80", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        int rows = 0;
+        for (String line : run.out().split("\n")) {
+            JsonNode node = JSON.readTree(line);
+            State state = State.of(node.get("n").asInt(), node.get("l").asInt(),
+                    (int) Math.round(2 * fraction(node.get("j").asString())));
+            assertEquals(rb.energyPerCm(state), node.get("energy_per_cm").asDouble(), 1e-9, line);
+            assertEquals("Rb-87 I", node.get("species").asString());
+            rows++;
+        }
+        assertTrue(rows > 300, "rows " + rows);
+        // 5s1/2 is the zero; D2 upper level 5p3/2 at 12816.54 cm-1 (NIST ASD; from memory).
+        assertTrue(run.out().contains("\"label\":\"5s 2S1/2\",\"n\":5,\"l\":0,\"j\":\"1/2\""), run.out());
+        assertTrue(run.out().contains("\"energy_per_cm\":12816.5"), run.out());
+    }
+
+    @Test
+    void oneTransitionInDetail() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--transition", "50d5/2 -> 51p3/2",
+                "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        JsonNode node = JSON.readTree(run.out());
+        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        State d = State.parse("50d5/2");
+        State p = State.parse("51p3/2");
+        assertEquals(Math.abs(rb.frequencyHz(p, d)), node.get("frequency_hz").asDouble(), 1);
+        assertEquals(rb.reducedDipole(d, p), node.get("reduced_dipole_ea0").asDouble(), 1e-9);
+        assertEquals(rb.radiativeLifetime(d), node.get("upper_lifetime_s").asDouble(), 1e-15);
+        assertEquals(rb.effectiveLifetime(p, 300), node.get("lower_effective_lifetime_s").asDouble(), 1e-15);
+        assertTrue(node.get("air_wavelength_nm").isNull(), "no air wavelength at 17 GHz");
+        // Near 17.04 GHz (Rydberg electrometry literature; from memory).
+        assertEquals(17.04e9, node.get("frequency_hz").asDouble(), 0.05e9);
+    }
+
+    @Test
+    void theLadderWavelengths() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,60s1/2", "--format",
+                "csv");
+        assertEquals(0, run.code(), run.err());
+        String[] rows = run.out().split("\n");
+        assertEquals("species,step,from,to,vacuum_wavelength_nm,air_wavelength_nm,frequency_hz", rows[0]);
+        // Rb D2, 780.241 nm in vacuum (Steck, Rubidium 87 D Line Data; from memory).
+        assertEquals(780.241, Double.parseDouble(rows[1].split(",")[4]), 0.001);
+        assertTrue(Double.parseDouble(rows[2].split(",")[4]) > 479 && Double.parseDouble(rows[2].split(",")[4]) < 481);
+    }
+
+    @Test
+    void linesInAMicrowaveWindowComeFromTheModel() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--from", "16.9GHz", "--to", "17.2GHz",
+                "--n-max", "55", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        boolean found = false;
+        for (String line : run.out().split("\n")) {
+            JsonNode node = JSON.readTree(line);
+            double hz = node.get("frequency_hz").asDouble();
+            assertTrue(hz >= 16.9e9 && hz <= 17.2e9, line);
+            State upper = State.parse(node.get("upper").asString().replace(" 2", "").replaceAll("[SPDF]", ""));
+            State lower = State.parse(node.get("lower").asString().replace(" 2", "").replaceAll("[SPDF]", ""));
+            assertEquals(rb.einsteinA(upper, lower), node.get("einstein_a_per_s").asDouble(), 1e-12);
+            found |= node.get("upper").asString().equals("50d 2D5/2") && node.get("lower").asString().equals("51p 2P3/2");
+        }
+        assertTrue(found, run.out());
+    }
+
+    @Test
+    void clearErrors() {
+        assertTrue(CliTest.run("lines", "--species", "Rb-87 I", "--transition", "50d5/2 -> 51d5/2").err()
+                .contains("are not joined by an electric-dipole line"));
+        assertTrue(CliTest.run("lines", "--species", "H I", "--transition", "2p1/2 -> 1s1/2").err()
+                .contains("--transition needs exactly one alkali atom"));
+        assertTrue(CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2").err()
+                .contains("--ladder takes three states"));
+        assertTrue(CliTest.run("levels", "--species", "Fe I").err()
+                .contains("levels and lines cover one-electron ions"));
+        assertTrue(CliTest.run("lines", "--species", "Rb-87 I").err().contains("give --from and --to"));
+        CliTest.Run low = CliTest.run("lines", "--species", "Rb-87 I", "--transition", "2p3/2 -> 3s1/2");
+        assertEquals(2, low.code());
+        assertTrue(low.err().contains("2p"), low.err());
+    }
+
+    private static double fraction(String text) {
+        String[] parts = text.split("/");
+        return parts.length == 1 ? Double.parseDouble(parts[0]) : Double.parseDouble(parts[0]) / Double.parseDouble(parts[1]);
+    }
+}
