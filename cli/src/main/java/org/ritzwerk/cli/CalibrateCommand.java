@@ -11,7 +11,6 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
-import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.calibrate.DispersionFit;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
@@ -22,14 +21,12 @@ import org.ritzwerk.engine.calibrate.LampMatcher;
 import org.ritzwerk.engine.calibrate.PeakFinder;
 import org.ritzwerk.engine.calibrate.PeakFlag;
 import org.ritzwerk.engine.calibrate.Peaks;
-import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.QuantityText;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.CalibrationFiles;
 import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.SpectrumFiles;
-import org.ritzwerk.refdata.UserFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -245,24 +242,14 @@ final class CalibrateCommand implements Callable<Integer> {
         List<Species> speciesOfLine = new ArrayList<>();
         boolean allSigmas = true;
         for (String set : sets) {
-            Path path = Path.of(set);
-            DataSet data = Files.exists(path) ? UserFiles.read(path) : registry.load(set);
-            if (!(data instanceof LineList)) {
-                throw new IllegalArgumentException(set + " is a " + data.info().kind().id() + " set, not a line list");
-            }
-            LineList list = (LineList) data;
-            double[] positions = new double[list.size()];
-            for (int i = 0; i < list.size(); i++) {
-                positions[i] = list.position(i);
-            }
-            double[] converted = new double[list.size()];
-            SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.NANOMETRE, solutionMedium, converted);
+            LineList list = LineSets.load(set, "lamp set");
+            double[] converted = LineSets.wavelengths(list, Unit.NANOMETRE, solutionMedium);
             for (int i = 0; i < list.size(); i++) {
                 nm.add(converted[i]);
                 intensity.add(list.intensity(i).orElse(1));
                 double u = list.uncertainty(i).orElse(Double.NaN);
                 allSigmas &= !Double.isNaN(u);
-                sigma.add(Math.abs(converted[i] / positions[i]) * u);
+                sigma.add(Math.abs(converted[i] / list.position(i)) * u);
                 speciesOfLine.add(list.species(i));
                 labels.add(list.species(i).notation() + " " + list.position(i) + " " + list.unit().symbol()
                         + (list.medium() == null ? "" : " " + list.medium().label()));

@@ -19,7 +19,6 @@ import org.ritzwerk.engine.calibrate.LampMatch;
 import org.ritzwerk.engine.calibrate.LampMatcher;
 import org.ritzwerk.engine.calibrate.PeakFinder;
 import org.ritzwerk.engine.calibrate.Peaks;
-import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
@@ -133,8 +132,7 @@ final class DemoScenario {
             listed[i] = neon.position(i);
             intensity[i] = neon.intensity(i).orElse(0);
         }
-        double[] vacuum = new double[neon.size()];
-        SpectralArrays.convert(listed, neon.unit(), neon.medium(), Unit.NANOMETRE, Medium.vacuum(), vacuum);
+        double[] vacuum = LineSets.wavelengths(neon, Unit.NANOMETRE, Medium.vacuum());
         double neonMass = NuclearData.builtIn().nucleus(Species.parse("Ne I")).massKg()
                 + 10 * PhysicalConstants.ELECTRON_MASS.value();
         double[] expected = Scene.builder(detector).medium(Medium.air()).temperature(350)

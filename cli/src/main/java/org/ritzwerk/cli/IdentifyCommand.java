@@ -1,14 +1,12 @@
 package org.ritzwerk.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.ritzwerk.constants.PhysicalConstants;
-import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
@@ -22,9 +20,7 @@ import org.ritzwerk.engine.identify.Tolerance;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
-import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.PeakFiles;
-import org.ritzwerk.refdata.UserFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -218,27 +214,15 @@ final class IdentifyCommand implements Callable<Integer> {
                 }
             }
         }
-        DataRegistry registry = DataRegistry.discoverDefault();
         for (String set : lineSets) {
-            Path path = Path.of(set);
-            DataSet data = Files.exists(path) ? UserFiles.read(path) : registry.load(set);
-            if (!(data instanceof LineList)) {
-                throw new IllegalArgumentException("--lines " + set + " is a " + data.info().kind().id()
-                        + " set, not a line list");
-            }
-            LineList list = (LineList) data;
-            double[] vacuum = new double[list.size()];
-            double[] positions = new double[list.size()];
-            for (int i = 0; i < list.size(); i++) {
-                positions[i] = list.position(i);
-            }
-            SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.METRE, Medium.vacuum(), vacuum);
+            LineList list = LineSets.load(set, "--lines");
+            double[] vacuum = LineSets.wavelengths(list, Unit.METRE, Medium.vacuum());
             for (int i = 0; i < list.size(); i++) {
                 if (vacuum[i] < lo || vacuum[i] > hi) {
                     continue;
                 }
                 double sigma = list.uncertainty(i).isPresent()
-                        ? Math.abs(vacuum[i] / positions[i]) * list.uncertainty(i).getAsDouble() : 0;
+                        ? Math.abs(vacuum[i] / list.position(i)) * list.uncertainty(i).getAsDouble() : 0;
                 double strength = list.intensity(i).isPresent() ? list.intensity(i).getAsDouble()
                         : list.einsteinA(i).orElse(Double.NaN);
                 String label = list.lower(i) != null && list.upper(i) != null ? list.upper(i) + " - " + list.lower(i)

@@ -19,13 +19,9 @@ import java.util.function.DoubleUnaryOperator;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Species;
-import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.LineList;
-import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.quantity.Unit;
-import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.NuclearData;
-import org.ritzwerk.refdata.UserFiles;
 import org.ritzwerk.engine.synth.Continuum;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.PixelGrid;
@@ -320,21 +316,9 @@ final class SynthCommand implements Callable<Integer> {
                 ionScale = Math.max(ionScale, ionLines.photons(i));
             }
         }
-        DataRegistry registry = DataRegistry.discoverDefault();
         for (String set : lineSets) {
-            Path path = Path.of(set);
-            DataSet data = Files.exists(path) ? UserFiles.read(path) : registry.load(set);
-            if (!(data instanceof LineList)) {
-                throw new IllegalArgumentException("--lines " + set + " is a " + data.info().kind().id()
-                        + " set, not a line list");
-            }
-            LineList list = (LineList) data;
-            double[] positions = new double[list.size()];
-            for (int i = 0; i < list.size(); i++) {
-                positions[i] = list.position(i);
-            }
-            double[] vacuum = new double[list.size()];
-            SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.NANOMETRE, Medium.vacuum(), vacuum);
+            LineList list = LineSets.load(set, "--lines");
+            double[] vacuum = LineSets.wavelengths(list, Unit.NANOMETRE, Medium.vacuum());
             double strongest = 0;
             for (int i = 0; i < list.size(); i++) {
                 strongest = Math.max(strongest, list.intensity(i).orElse(0));

@@ -1,0 +1,50 @@
+package org.ritzwerk.cli;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.ritzwerk.data.DataSet;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.UserFiles;
+
+/** The line lists that --lines (and --lamp) name: a user's file or a data set id. */
+final class LineSets {
+
+    private LineSets() {
+    }
+
+    /**
+     * @param set    a path to a line-list file, or a data set id such as {@code lamp-ne-i}
+     * @param option the option that named it, for messages
+     * @return the line list
+     * @throws IllegalArgumentException when the set is not a line list
+     */
+    static LineList load(String set, String option) {
+        Path path = Path.of(set);
+        DataSet data = Files.exists(path) ? UserFiles.read(path) : DataRegistry.discoverDefault().load(set);
+        if (!(data instanceof LineList)) {
+            throw new IllegalArgumentException(option + " " + set + " is a " + data.info().kind().id()
+                    + " set, not a line list");
+        }
+        return (LineList) data;
+    }
+
+    /**
+     * @param list   a line list
+     * @param unit   the wavelength unit wanted
+     * @param medium the medium wanted
+     * @return every line's position as a wavelength in that unit and medium
+     */
+    static double[] wavelengths(LineList list, Unit unit, Medium medium) {
+        double[] positions = new double[list.size()];
+        for (int i = 0; i < list.size(); i++) {
+            positions[i] = list.position(i);
+        }
+        double[] converted = new double[list.size()];
+        SpectralArrays.convert(positions, list.unit(), list.medium(), unit, medium, converted);
+        return converted;
+    }
+}
