@@ -78,7 +78,9 @@ public class RydbergDipoleBenchmark {
     /** @return {@code <ns|r|np>} in a0, square-root grid */
     @Benchmark
     public double numerovSquareRootGrid() {
-        return rubidium.radialDipoleBohr(s, p);
+        // A fresh atom each time: the atom keeps the wavefunctions it computed, and the baseline
+        // integrates both states anew on every call too.
+        return rubidium.withStep(AlkaliAtom.DEFAULT_STEP).radialDipoleBohr(s, p);
     }
 
     /** @return {@code <ns|r|np>} in a0, uniform grid in r */

@@ -16,7 +16,8 @@ import org.ritzwerk.engine.angular.WignerSymbols;
  * One alkali atom (one valence electron outside a closed core) built from a quantum-defect set,
  * measured low-lying levels and, optionally, the core polarizabilities: its levels, radial
  * wavefunctions, dipole matrix elements, decay rates, lifetimes and transition frequencies.
- * Immutable and thread-safe; nothing is cached, so every call recomputes what it needs.
+ * Immutable and thread-safe; computed wavefunctions are kept for reuse in a bounded concurrent map
+ * (up to 512 of them), which changes no result.
  *
  * <p><b>Levels</b> ({@link #level(State)}), energies above the ground level in cm^-1:
  * <ol>
@@ -69,6 +70,9 @@ public final class AlkaliAtom {
     /** The default Numerov step in x = sqrt(r / a_mu). */
     public static final double DEFAULT_STEP = 0.01;
 
+    /** How many wavefunctions an atom keeps for reuse. */
+    private static final int WAVEFUNCTION_CACHE = 512;
+
     private static final double H = PhysicalConstants.H;
     private static final double C = PhysicalConstants.C;
     private static final double ALPHA = PhysicalConstants.FINE_STRUCTURE.value();
@@ -87,6 +91,8 @@ public final class AlkaliAtom {
     private final State ground;
     private final double step;
     private final ModelPotential model;
+    /** Wavefunctions computed so far (they are immutable); cleared when it reaches its bound. */
+    private final Map<State, RadialWavefunction> wavefunctions = new java.util.concurrent.ConcurrentHashMap<>();
 
     private AlkaliAtom(QuantumDefects defects, List<MeasuredLevel> measuredList, CorePolarizability core, double step,
             ModelPotential model) {
@@ -399,10 +405,22 @@ public final class AlkaliAtom {
      * @throws RydbergException when the model has no energy for it
      */
     public RadialWavefunction wavefunction(State state) {
+        RadialWavefunction known = wavefunctions.get(state);
+        if (known != null) {
+            return known;
+        }
         Level level = level(state);
         double alpha = core != null ? core.dipoleAu() : model != null ? model.alphaC() : 0;
         double inner = Math.cbrt(alpha) / lengthScale();
-        return RadialWavefunction.integrate(state, level.effectiveN(), inner, step, lengthScale(), model);
+        RadialWavefunction computed = RadialWavefunction.integrate(state, level.effectiveN(), inner, step,
+                lengthScale(), model);
+        // Lifetimes and line lists ask for the same lower states again and again; keep a bounded
+        // number (a wavefunction near n = 100 holds about 15,000 points).
+        if (wavefunctions.size() >= WAVEFUNCTION_CACHE) {
+            wavefunctions.clear();
+        }
+        wavefunctions.put(state, computed);
+        return computed;
     }
 
     /** a_mu / a0 = R_inf / R_M. */
