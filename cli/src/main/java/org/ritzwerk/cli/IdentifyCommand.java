@@ -91,15 +91,40 @@ final class IdentifyCommand implements Callable<Integer> {
                 "instead of g A alone."})
     Double excitationTemperature;
 
+    @Option(names = "--plasma",
+            description = {"Instead of the per-peak table, the plasma diagnostics the identified lines allow:",
+                "the excitation temperature of each --species from a Boltzmann plot of its matched",
+                "multiplets (peak intensities as photon counts), and the electron density from the",
+                "width column of matched H or D Balmer-alpha and -beta peaks (Stark fits of Gigosos et",
+                "al. 2003, after taking --instrument-fwhm and the Doppler width out)."})
+    boolean plasma;
+
+    @Option(names = "--instrument-fwhm", paramLabel = "NM", defaultValue = "0",
+            description = "With --plasma: the spectrometer's Gaussian FWHM in nm (default: ${DEFAULT-VALUE}).")
+    double instrumentFwhm;
+
+    @Option(names = "--resolving-power", paramLabel = "R",
+            description = "With --plasma, instead of --instrument-fwhm: the response's FWHM is lambda / R at each line.")
+    Double resolvingPower;
+
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (table and summary), csv or json (one object per peak). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
+
+    /** The physics of each --species multiplet, by species and label, for --plasma. */
+    private final java.util.Map<String, PlasmaDiagnostics.Multiplet> multiplets = new java.util.HashMap<>();
 
     @Override
     public Integer call() {
         if (excitationTemperature != null && !(excitationTemperature > 0 && excitationTemperature < 1e9)) {
             throw new IllegalArgumentException("--excitation-temperature must be a positive number of kelvin, got "
                     + excitationTemperature);
+        }
+        if (plasma && components) {
+            throw new IllegalArgumentException("--plasma works on n -> n' multiplets; leave out --components");
+        }
+        if (!(instrumentFwhm >= 0) || Double.isInfinite(instrumentFwhm)) {
+            throw new IllegalArgumentException("--instrument-fwhm must be a finite width >= 0 nm, got " + instrumentFwhm);
         }
         if (species.isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give candidate lines: --species (one-electron ions) and/or --lines");
@@ -132,6 +157,15 @@ final class IdentifyCommand implements Callable<Integer> {
             used = used.offset(offsetFit.value());
         }
         Identification result = identifier.identify(peaks, used);
+        if (plasma) {
+            if (resolvingPower != null && (instrumentFwhm != 0 || !(resolvingPower > 0)
+                    || Double.isInfinite(resolvingPower))) {
+                throw new IllegalArgumentException("give --instrument-fwhm or a positive --resolving-power, not both");
+            }
+            PlasmaDiagnostics.table(read, result, used, multiplets::get, instrumentFwhm, resolvingPower,
+                    excitationTemperature, spec.commandLine().getErr()).write(spec.commandLine().getOut(), format);
+            return 0;
+        }
         write(read, result, used, fit, offsetFit);
         return 0;
     }
@@ -206,6 +240,10 @@ final class IdentifyCommand implements Callable<Integer> {
                     if (components) {
                         builder.add(ion.species(), vacuum, 0, strength, label);
                     } else {
+                        int n = table.upperN(i);
+                        multiplets.put(ion.species().notation() + " " + label, new PlasmaDiagnostics.Multiplet(ion.model(), n,
+                                table.lowerN(i), ion.model().energy(n, 0, 1) - ground, table.upperWeight(i),
+                                table.einsteinA(i), table.frequency(i)));
                         // A multiplet blends its fine-structure components: it may explain each of
                         // them where the instrument half-resolves them.
                         builder.addBlend(ion.species(), vacuum, 0, strength, label);

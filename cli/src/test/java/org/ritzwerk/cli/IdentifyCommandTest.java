@@ -7,6 +7,8 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import tools.jackson.databind.JsonNode;
@@ -102,5 +104,61 @@ class IdentifyCommandTest {
         CliTest.Run zero = CliTest.run("identify", noSigma.toString(), "--species", "H", "--tolerance", "0 nm");
         assertEquals(2, zero.code());
         assertTrue(zero.err().contains("tolerance must be finite and positive"), zero.err());
+    }
+
+    @Test
+    void plasmaDiagnosticsRecoverTheSynthesisedConditions(@TempDir Path dir) throws IOException {
+        // synth's truth file: each line's position, counts and widths at T = 12,000 K and
+        // n_e = 2e22 m^-3. Peaks with those intensities and Voigt widths (plus the instrument's
+        // lambda / R) must give back the temperature (Boltzmann plot) and the density (H-beta,
+        // H-alpha Stark widths, Gigosos et al. 2003).
+        Path truth = dir.resolve("truth.csv");
+        CliTest.Run synth = CliTest.run("synth", "--species", "H I", "--from", "380 nm", "--to", "700 nm",
+                "--temperature", "12000", "--electron-density", "2e22", "--resolving-power", "5000", "--no-noise",
+                "--n-max", "9", "--truth", truth.toString(), "--out", dir.resolve("s.csv").toString());
+        assertEquals(0, synth.code(), synth.err());
+        StringBuilder peaks = new StringBuilder("# ritzwerk-peaks 1\n# id: plasma-test\n# title: synthetic\n"
+                + "# source: ritzwerk synth\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
+                + "# medium: vacuum\nposition,uncertainty,intensity,width\n");
+        for (String row : Files.readAllLines(truth)) {
+            if (row.startsWith("#") || row.startsWith("wavelength_nm")) {
+                continue;
+            }
+            String[] c = row.split(",");
+            double nm = Double.parseDouble(c[0]);
+            if (nm < 380 || nm > 700) {
+                continue;
+            }
+            double gauss = Math.hypot(Double.parseDouble(c[2]), nm / 5000);
+            double lorentz = Double.parseDouble(c[3]);
+            double voigt = 0.5346 * lorentz + Math.sqrt(0.2166 * lorentz * lorentz + gauss * gauss);
+            peaks.append(String.format(java.util.Locale.ROOT, "%.6f,0.001,%s,%.6f%n", nm, c[1], voigt));
+        }
+        Path file = dir.resolve("peaks.csv");
+        Files.writeString(file, peaks);
+        CliTest.Run run = CliTest.run("identify", file.toString(), "--species", "H I", "--n-max", "9", "--plasma",
+                "--resolving-power", "5000", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        double temperature = Double.NaN;
+        List<Double> densities = new ArrayList<>();
+        JsonMapper json = JsonMapper.builder().build();
+        for (String row : run.out().split("\n")) {
+            JsonNode node = json.readTree(row);
+            if (node.get("quantity").asString().equals("excitation_temperature")) {
+                temperature = node.get("value").asDouble();
+            } else {
+                densities.add(node.get("value").asDouble());
+            }
+        }
+        assertEquals(12_000, temperature, 12, run.out());
+        // H-alpha and H-beta; the Voigt-width approximation is good to 0.02 %: within 1 %.
+        assertEquals(2, densities.size(), run.out());
+        for (double density : densities) {
+            assertEquals(2e22, density, 0.01 * 2e22, run.out());
+        }
+        assertTrue(CliTest.run("identify", file.toString(), "--species", "H I", "--plasma", "--components").err()
+                .contains("--plasma works on n -> n' multiplets"));
+        assertTrue(CliTest.run("identify", file.toString(), "--species", "H I", "--plasma", "--resolving-power", "5000",
+                "--instrument-fwhm", "0.1").err().contains("not both"));
     }
 }

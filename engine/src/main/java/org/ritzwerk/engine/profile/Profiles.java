@@ -107,6 +107,33 @@ public final class Profiles {
         return 0.5346 * lorentzFwhm + Math.sqrt(0.2166 * lorentzFwhm * lorentzFwhm + gaussianFwhm * gaussianFwhm);
     }
 
+    /**
+     * The inverse of {@link #voigtFwhm}: the Lorentzian FWHM that, with the given Gaussian FWHM,
+     * makes the given Voigt FWHM under the same approximation (the smaller root of its quadratic
+     * in f_L), for taking a known Gaussian part out of a measured width.
+     *
+     * @param voigtFwhm    the Voigt FWHM, at least the Gaussian FWHM
+     * @param gaussianFwhm the Gaussian FWHM, not negative
+     * @return the Lorentzian FWHM, 0 when the two are equal
+     * @throws IllegalArgumentException when the Voigt FWHM is below the Gaussian one
+     */
+    public static double lorentzFwhmOfVoigt(double voigtFwhm, double gaussianFwhm) {
+        check("Voigt", voigtFwhm, true);
+        check("Gaussian", gaussianFwhm, true);
+        if (voigtFwhm < gaussianFwhm) {
+            throw new IllegalArgumentException("a Voigt FWHM of " + voigtFwhm + " is narrower than its Gaussian part "
+                    + gaussianFwhm + "; no Lorentzian width fits");
+        }
+        // (f_V - 0.5346 f_L)^2 = 0.2166 f_L^2 + f_G^2, i.e. a f_L^2 - 1.0692 f_V f_L + f_V^2 - f_G^2 = 0.
+        double a = 0.5346 * 0.5346 - 0.2166;
+        double b = 2 * 0.5346 * voigtFwhm;
+        double c = voigtFwhm * voigtFwhm - gaussianFwhm * gaussianFwhm;
+        if (c == 0) {
+            return 0;
+        }
+        return 2 * c / (b + Math.sqrt(b * b - 4 * a * c));
+    }
+
     private static void check(String what, double fwhm, boolean zeroAllowed) {
         if (!Double.isFinite(fwhm) || fwhm < 0 || !zeroAllowed && fwhm == 0) {
             throw new IllegalArgumentException(what + " FWHM must be finite and " + (zeroAllowed ? "not negative"

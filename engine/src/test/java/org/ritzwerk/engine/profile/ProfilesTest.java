@@ -91,4 +91,16 @@ class ProfilesTest {
                 assertThrows(IllegalArgumentException.class, () -> Profiles.voigt(0, 0, 0)).getMessage());
         assertThrows(IllegalArgumentException.class, () -> Profiles.voigt(0, -1, 1));
     }
+
+    @Test
+    void theLorentzianPartOfAVoigtWidthInvertsTheApproximation() {
+        qt().withFixedSeed(61L).withExamples(300)
+                .forAll(doubles().between(0, 5), doubles().between(0, 5))
+                .checkAssert((g, l) -> {
+                    double v = Profiles.voigtFwhm(g, l);
+                    assertEquals(l, Profiles.lorentzFwhmOfVoigt(v, g), 1e-12 * (1 + v));
+                });
+        assertEquals(0, Profiles.lorentzFwhmOfVoigt(0.3, 0.3), 1e-15);
+        assertThrows(IllegalArgumentException.class, () -> Profiles.lorentzFwhmOfVoigt(0.2, 0.3));
+    }
 }
