@@ -367,6 +367,8 @@ public final class LampMatcher {
         private final double half;
         private long hypotheses;
         private final Map<GrowthKey, Candidate> grown = new HashMap<>();
+        private int[] owner = new int[0];
+        private double[] distance = new double[0];
 
         Search(double[] centre, double[] intensity, int pixels, LampLines lines, Prior searchPrior) {
             this.centre = centre;
@@ -583,9 +585,14 @@ public final class LampMatcher {
          */
         private int assign(double[] a, double[] peakPixel, double from, double to, int[] matched) {
             int n = peakPixel.length;
-            int[] owner = new int[window.length];
+            // Scratch arrays reused across the many hypotheses of one search (one thread).
+            if (owner.length != window.length) {
+                owner = new int[window.length];
+            }
+            if (distance.length < n) {
+                distance = new double[n];
+            }
             Arrays.fill(owner, -1);
-            double[] distance = new double[n];
             Arrays.fill(matched, -1);
             for (int k = 0; k < n; k++) {
                 double p = peakPixel[k];
