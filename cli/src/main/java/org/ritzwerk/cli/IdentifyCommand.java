@@ -11,6 +11,7 @@ import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.identify.Identification;
 import org.ritzwerk.engine.identify.Identifier;
 import org.ritzwerk.engine.identify.LineCatalog;
@@ -51,7 +52,8 @@ final class IdentifyCommand implements Callable<Integer> {
     Path peaksFile;
 
     @Option(names = "--species", paramLabel = "SPECIES",
-            description = "One-electron ions whose lines the engine computes: \"H I\", D, \"He II\". Repeatable.")
+            description = {"Species whose lines the engine computes: one-electron ions (\"H I\", D, \"He II\")",
+                "and alkali atoms (\"Rb-87 I\", \"Cs I\", ...). Repeatable."})
     List<String> species = new ArrayList<>();
 
     @Option(names = "--lines", paramLabel = "SET",
@@ -219,7 +221,20 @@ final class IdentifyCommand implements Callable<Integer> {
         LineCatalog.Builder builder = LineCatalog.builder();
         int count = 0;
         if (!species.isEmpty()) {
-            for (Ions.Ion ion : Ions.of(species, model)) {
+            Ions.Atoms atoms = Ions.atoms(species, model);
+            for (AlkaliAtom atom : atoms.alkalis()) {
+                // Alkali lines between the model's levels (l <= 3), weighted by g A.
+                Progress progress = Progress.on(spec.commandLine().getErr(), "identify: " + atom.species().notation()
+                        + " lines");
+                for (AlkaliLines.Line line : AlkaliLines.window(atom, PhysicalConstants.C / hi,
+                        PhysicalConstants.C / lo, nMax, 3, 0, progress)) {
+                    builder.add(atom.species(), PhysicalConstants.C / line.frequency(), 0,
+                            (line.upper().twoJ() + 1) * line.einsteinA(),
+                            line.upper().notation() + " - " + line.lower().notation());
+                    count++;
+                }
+            }
+            for (Ions.Ion ion : atoms.ions()) {
                 HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
                 double fromHz = PhysicalConstants.C / hi;
                 double toHz = PhysicalConstants.C / lo;

@@ -53,9 +53,18 @@ final class Ions {
         if (species.isEmpty()) {
             throw new IllegalArgumentException("--species is required, e.g. --species \"H I\" or \"Rb-87 I\"");
         }
+        return atoms(species, model);
+    }
+
+    /**
+     * @param speciesOptions the --species values, each possibly a comma-separated list
+     * @param tierId         the --model value, for the one-electron ions
+     * @return the one-electron ions and the alkali atoms among them
+     */
+    static Atoms atoms(List<String> speciesOptions, String tierId) {
         List<String> oneElectron = new ArrayList<>();
         List<AlkaliAtom> alkalis = new ArrayList<>();
-        for (String option : species) {
+        for (String option : speciesOptions) {
             for (String text : option.split(",")) {
                 if (text.isBlank()) {
                     throw new IllegalArgumentException("--species has an empty entry in '" + option + "'");
@@ -73,7 +82,7 @@ final class Ions {
                 }
             }
         }
-        return new Atoms(oneElectron.isEmpty() ? List.of() : of(oneElectron, model), alkalis);
+        return new Atoms(oneElectron.isEmpty() ? List.of() : of(oneElectron, tierId), alkalis);
     }
 
     /**

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.State;
@@ -83,6 +84,29 @@ class AlkaliCommandsTest {
             found |= node.get("upper").asString().equals("50d 2D5/2") && node.get("lower").asString().equals("51p 2P3/2");
         }
         assertTrue(found, run.out());
+    }
+
+    @Test
+    void identifyFindsTheAlkaliResonanceLines(@TempDir java.nio.file.Path dir) throws java.io.IOException {
+        // Rb D2 780.241 nm, Rb D1 794.979 nm and Cs D2 852.347 nm in vacuum (Steck's alkali D-line
+        // data; from memory), as a spectrometer reading vacuum wavelengths would give them.
+        java.nio.file.Path peaks = dir.resolve("alkali-peaks.csv");
+        java.nio.file.Files.writeString(peaks, "# ritzwerk-peaks 1\n# id: alkali-test\n# title: D lines\n"
+                + "# source: Steck (from memory)\n# provenance: from-memory\n# version: 1\n# position-unit: nm\n"
+                + "# medium: vacuum\nposition,uncertainty\n780.241,0.002\n794.979,0.002\n852.347,0.002\n");
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "Rb-87 I,Cs I", "--n-max", "12",
+                "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        String[] rows = run.out().split("\n");
+        assertEquals(3, rows.length, run.out());
+        String[] expected = {"5p 2P3/2 - 5s 2S1/2", "5p 2P1/2 - 5s 2S1/2", "6p 2P3/2 - 6s 2S1/2"};
+        String[] species = {"Rb-87 I", "Rb-87 I", "Cs-133 I"};
+        for (int i = 0; i < 3; i++) {
+            JsonNode node = JSON.readTree(rows[i]);
+            assertEquals("matched", node.get("status").asString(), rows[i]);
+            assertEquals(species[i], node.get("species").asString(), rows[i]);
+            assertEquals(expected[i], node.get("transition").asString(), rows[i]);
+        }
     }
 
     @Test
