@@ -29,11 +29,6 @@ final class Ions {
         return of(species, model);
     }
 
-    /** @return the models of the ions named by the options, perhaps none */
-    List<Ion> resolveAny() {
-        return of(species, model);
-    }
-
     /** A species with its model. */
     record Ion(Species species, HydrogenLikeModel model) {
     }

@@ -27,6 +27,9 @@ import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.QuantityText;
 import picocli.CommandLine.Command;
@@ -42,7 +45,8 @@ import tools.jackson.databind.node.ObjectNode;
 @Command(name = "synth",
         mixinStandardHelpOptions = true,
         description = {
-            "Render a synthetic emission spectrum: the n -> n' lines of one-electron ions, upper",
+            "Render a synthetic emission spectrum: the n -> n' lines of one-electron ions (and the lines of",
+            "alkali atoms, and line lists with --lines), upper",
             "levels populated by Boltzmann's law at --temperature (which also sets the Doppler",
             "width), seen through a Gaussian instrument of --resolving-power, integrated over",
             "each pixel, scaled so the brightest pixel expects --peak-counts, then given Poisson",
@@ -203,15 +207,22 @@ final class SynthCommand implements Callable<Integer> {
             option("--electron-density", () -> builder.electronDensity(electronDensity));
         }
         Map<Integer, Double> abundance = abundances();
-        List<Ions.Ion> resolved = ions.resolveAny();
-        if (resolved.isEmpty() && lineSets.isEmpty()) {
-            throw new IllegalArgumentException("give --species (one-electron ions), --lines (line lists), or both");
+        Ions.Atoms atoms = ions.species.isEmpty() ? new Ions.Atoms(List.of(), List.of())
+                : Ions.atoms(ions.species, ions.model);
+        List<Ions.Ion> resolved = atoms.ions();
+        if (resolved.isEmpty() && atoms.alkalis().isEmpty() && lineSets.isEmpty()) {
+            throw new IllegalArgumentException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
+                    + " or both");
         }
         for (Ions.Ion ion : resolved) {
             builder.hydrogenLike(ion.species(), ion.model(), abundance.getOrDefault(ion.species().z(), 1.0));
         }
+        for (AlkaliAtom atom : atoms.alkalis()) {
+            addAlkali(builder, atom, abundance.getOrDefault(atom.species().z(), 1.0), grid);
+        }
         for (int z : abundance.keySet()) {
-            if (resolved.stream().noneMatch(ion -> ion.species().z() == z)) {
+            if (resolved.stream().noneMatch(ion -> ion.species().z() == z)
+                    && atoms.alkalis().stream().noneMatch(atom -> atom.species().z() == z)) {
                 throw new IllegalArgumentException("--abundance names " + Elements.symbol(z)
                         + ", which is not among --species");
             }
@@ -296,6 +307,53 @@ final class SynthCommand implements Callable<Integer> {
             case "log" -> PixelGrid.logarithmic(lo, hi, pixels);
             default -> throw new IllegalArgumentException("--grid must be linear or log, got '" + gridKind + "'");
         };
+    }
+
+    /**
+     * An alkali atom's lines between its levels (n <= --n-max, l <= 3) as a line list, each with
+     * the photon rate abundance (2j_u + 1) A exp(-E_u / kT) / U, U summed over the same levels:
+     * Boltzmann's law as for the one-electron ions, with no ionisation balance.
+     */
+    private void addAlkali(Scene.Builder builder, AlkaliAtom atom, double abundance, PixelGrid grid) {
+        double beta = Math.abs(velocity) * 1e3 / PhysicalConstants.C;
+        double lowHz = PhysicalConstants.C / (grid.edge(grid.pixels()) * 1.02e-9 * (1 + beta));
+        double highHz = PhysicalConstants.C / (grid.edge(0) * 0.98e-9 * (1 - beta));
+        double kT = PhysicalConstants.K * temperature;
+        double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
+        double partition = 0;
+        for (int n = 1; n <= nMax; n++) {
+            for (int l = 0; l <= Math.min(3, n - 1); l++) {
+                for (int twoJ = Math.max(1, 2 * l - 1); twoJ <= 2 * l + 1; twoJ += 2) {
+                    if (n < atom.lowestN(l)) {
+                        continue;
+                    }
+                    try {
+                        partition += (twoJ + 1) * Math.exp(-atom.energyPerCm(State.of(n, l, twoJ)) * hcPerCm / kT);
+                    } catch (RydbergException e) {
+                        // no energy for it: not in the model, not in the sum
+                    }
+                }
+            }
+        }
+        List<AlkaliLines.Line> lines = AlkaliLines.window(atom, lowHz, highHz, nMax, 3, 0,
+                Progress.on(spec.commandLine().getErr(), "synth: " + atom.species().notation() + " lines"));
+        double[] nm = new double[lines.size()];
+        double[] photons = new double[lines.size()];
+        String[] labels = new String[lines.size()];
+        for (int i = 0; i < lines.size(); i++) {
+            AlkaliLines.Line line = lines.get(i);
+            nm[i] = PhysicalConstants.C / line.frequency() * 1e9;
+            photons[i] = abundance * (line.upper().twoJ() + 1) * line.einsteinA()
+                    * Math.exp(-atom.energyPerCm(line.upper()) * hcPerCm / kT) / partition;
+            labels[i] = atom.species().notation() + " " + line.upper().notation() + " - " + line.lower().notation();
+        }
+        if (electronDensity != null) {
+            spec.commandLine().getErr().println("note: " + atom.species().notation() + ": no ionisation balance for"
+                    + " alkali atoms; --abundance counts its neutral atoms");
+        }
+        double mass = NuclearData.builtIn().nucleus(atom.species()).massKg()
+                + atom.species().z() * PhysicalConstants.ELECTRON_MASS.value();
+        builder.lineList(atom.species().notation(), nm, photons, mass, labels);
     }
 
     /** Adds each --lines set, one emitter per species in it, with its relative intensities. */

@@ -244,9 +244,38 @@ class SynthCommandTest {
         assertTrue(CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "540,0.06", "--from", "500 nm",
                 "--temperature", "400").err().contains("give --dispersion or --from/--to, not both"));
         assertTrue(CliTest.run("synth", "--from", "500 nm", "--to", "600 nm", "--temperature", "400").err()
-                .contains("give --species (one-electron ions), --lines (line lists), or both"));
+                .contains("give --species (one-electron ions, alkali atoms), --lines (line lists), or both"));
         assertTrue(CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "540,x", "--temperature", "400").err()
                 .contains("--dispersion: coefficient c1 'x' is not a number"));
+    }
+
+    @Test
+    void alkaliAtomsShineByBoltzmannsLaw(@TempDir Path dir) throws IOException {
+        // D2 over D1 of Rb: (g A)_D2 / (g A)_D1 exp(-(E_D2 - E_D1) / kT), both from the library's
+        // model; at 2000 K about 1.77 (common practice: optically thin Boltzmann populations).
+        Path truth = dir.resolve("rb.csv");
+        CliTest.Run run = CliTest.run("synth", "--species", "Rb-87 I", "--from", "770 nm", "--to", "800 nm",
+                "--temperature", "2000", "--no-noise", "--truth", truth.toString());
+        assertEquals(0, run.code(), run.err());
+        double d2 = Double.NaN;
+        double d1 = Double.NaN;
+        for (String row : Files.readAllLines(truth, StandardCharsets.UTF_8)) {
+            if (row.endsWith("5p 2P3/2 - 5s 2S1/2")) {
+                d2 = Double.parseDouble(row.split(",")[1]);
+            } else if (row.endsWith("5p 2P1/2 - 5s 2S1/2")) {
+                d1 = Double.parseDouble(row.split(",")[1]);
+            }
+        }
+        org.ritzwerk.engine.rydberg.AlkaliAtom rb = org.ritzwerk.refdata.RydbergData.builtIn()
+                .atom(org.ritzwerk.atom.Species.parse("Rb-87 I"));
+        org.ritzwerk.engine.rydberg.State g = org.ritzwerk.engine.rydberg.State.parse("5s1/2");
+        org.ritzwerk.engine.rydberg.State p1 = org.ritzwerk.engine.rydberg.State.parse("5p1/2");
+        org.ritzwerk.engine.rydberg.State p3 = org.ritzwerk.engine.rydberg.State.parse("5p3/2");
+        double kT = 1.380649e-23 * 2000;
+        double hcPerCm = 6.62607015e-34 * 299_792_458.0 * 100;
+        double expected = 4 * rb.einsteinA(p3, g) / (2 * rb.einsteinA(p1, g))
+                * Math.exp(-(rb.energyPerCm(p3) - rb.energyPerCm(p1)) * hcPerCm / kT);
+        assertEquals(expected, d2 / d1, 1e-4 * expected);
     }
 
     private static String[] lastRow(Path file) throws IOException {
