@@ -32,7 +32,9 @@ import org.ritzwerk.engine.plasma.BoltzmannPlot;
 import org.ritzwerk.engine.plasma.VoigtLineFit;
 import org.ritzwerk.engine.profile.BalmerStark;
 import org.ritzwerk.engine.profile.Broadening;
-import org.ritzwerk.engine.profile.Profiles;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.LadderExcitation;
+import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.Noise;
 import org.ritzwerk.engine.synth.PixelGrid;
@@ -43,9 +45,6 @@ import org.ritzwerk.refdata.CalibrationFiles;
 import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.NuclearData;
 import org.ritzwerk.refdata.RydbergData;
-import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.LadderExcitation;
-import org.ritzwerk.engine.rydberg.State;
 
 /**
  * The demo's invented scenario, run end to end with the library on data it generates itself

@@ -18,7 +18,6 @@ import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LevelList;
-import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.MeasuredLevel;
 import org.ritzwerk.engine.rydberg.ModelPotential;
