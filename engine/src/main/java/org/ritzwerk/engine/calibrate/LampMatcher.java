@@ -480,11 +480,10 @@ public final class LampMatcher {
             for (int k = 0; k < 3; k++) {
                 x[k] = (seedPixel[k] - mid) / half;
             }
-            PolynomialLeastSquares.Solution fit = PolynomialLeastSquares.fit(x, seedNm, null, null, 1);
-            if (fit == null) {
+            double[] a = PolynomialLeastSquares.coefficients(x, seedNm, 1);
+            if (a == null) {
                 return null;
             }
-            double[] a = fit.coefficients();
             double lo = seedPixel[0];
             double hi = seedPixel[2];
             int[] matchedLine = new int[strongPixel.length];
@@ -525,11 +524,11 @@ public final class LampMatcher {
                     }
                 }
                 int degree = degreeFor(count, (last - first) / pixels);
-                PolynomialLeastSquares.Solution next = PolynomialLeastSquares.fit(px, py, null, null, degree);
+                double[] next = PolynomialLeastSquares.coefficients(px, py, degree);
                 if (next == null) {
                     return null;
                 }
-                a = next.coefficients();
+                a = next;
                 lo = first;
                 hi = last;
                 boolean covered = from <= 0 && to >= pixels - 1;

@@ -104,6 +104,84 @@ final class PolynomialLeastSquares {
         return new Solution(coefficients, covariance, chiSquare);
     }
 
+    /** Highest degree {@link #coefficients} solves by its normal equations. */
+    private static final int NORMAL_EQUATIONS_MAX_DEGREE = 4;
+
+    /**
+     * Unweighted least-squares coefficients alone, for the matcher's thousands of trial fits:
+     * up to degree {@value #NORMAL_EQUATIONS_MAX_DEGREE} by the normal equations (with x within
+     * [-1, 1] they are well conditioned at these degrees; common practice) and Gaussian
+     * elimination with partial pivoting, allocating only small arrays; above that through
+     * {@link #fit}. Agrees with {@link #fit}'s coefficients to rounding.
+     *
+     * @param x      scaled abscissae
+     * @param y      ordinates
+     * @param degree polynomial degree, &gt;= 0
+     * @return the coefficients, or null when the design is singular
+     */
+    static double[] coefficients(double[] x, double[] y, int degree) {
+        if (degree > NORMAL_EQUATIONS_MAX_DEGREE) {
+            Solution solution = fit(x, y, null, null, degree);
+            return solution == null ? null : solution.coefficients();
+        }
+        int k = degree + 1;
+        if (x.length < k) {
+            return null;
+        }
+        double[] powerSums = new double[2 * k - 1];
+        double[] rhs = new double[k];
+        for (int i = 0; i < x.length; i++) {
+            double power = 1;
+            for (int p = 0; p < powerSums.length; p++) {
+                powerSums[p] += power;
+                if (p < k) {
+                    rhs[p] += power * y[i];
+                }
+                power *= x[i];
+            }
+        }
+        double[][] m = new double[k][k + 1];
+        for (int r = 0; r < k; r++) {
+            for (int c = 0; c < k; c++) {
+                m[r][c] = powerSums[r + c];
+            }
+            m[r][k] = rhs[r];
+        }
+        double scale = 0;
+        for (int r = 0; r < k; r++) {
+            scale = Math.max(scale, Math.abs(m[r][r]));
+        }
+        for (int col = 0; col < k; col++) {
+            int pivot = col;
+            for (int r = col + 1; r < k; r++) {
+                if (Math.abs(m[r][col]) > Math.abs(m[pivot][col])) {
+                    pivot = r;
+                }
+            }
+            if (!(Math.abs(m[pivot][col]) > 1e-12 * scale)) {
+                return null;
+            }
+            double[] swap = m[col];
+            m[col] = m[pivot];
+            m[pivot] = swap;
+            for (int r = col + 1; r < k; r++) {
+                double factor = m[r][col] / m[col][col];
+                for (int c = col; c <= k; c++) {
+                    m[r][c] -= factor * m[col][c];
+                }
+            }
+        }
+        double[] a = new double[k];
+        for (int r = k - 1; r >= 0; r--) {
+            double sum = m[r][k];
+            for (int c = r + 1; c < k; c++) {
+                sum -= m[r][c] * a[c];
+            }
+            a[r] = sum / m[r][r];
+        }
+        return a;
+    }
+
     /** @param a coefficients @param x scaled abscissa @return the polynomial by Horner's rule */
     static double evaluate(double[] a, double x) {
         double v = 0;
