@@ -12,9 +12,10 @@ import org.ritzwerk.engine.profile.Profiles;
 /**
  * Renders lines with Voigt profiles into the pixels of a {@link PixelGrid}: each pixel receives
  * the line flux that falls between its edges (the integral of the profile over the pixel, not
- * a sample at its centre). Integration is Gauss-Legendre with 8 nodes on pieces no wider than a
- * quarter of the larger of the line's FWHM and the distance from its centre, which keeps every
- * pixel's share within about 1e-10 of its exact value.
+ * a sample at its centre). Integration is Gauss-Legendre with 8 nodes (4 beyond 8 FWHMs, where
+ * the wing bends slowly) on pieces no wider than a quarter of the larger of the line's FWHM and
+ * the distance from its centre, which keeps every pixel's share within about 1e-10 of its exact
+ * value.
  *
  * <p>Each line is rendered only within a window of {@code window} Voigt FWHMs either side of its
  * centre; the flux beyond is not rendered. The fraction lost is at most
