@@ -19,6 +19,14 @@ final class ErrorReporter implements CommandLine.IExecutionExceptionHandler {
     public int handleExecutionException(Exception ex, CommandLine commandLine, CommandLine.ParseResult parseResult) {
         String command = commandLine.getCommandSpec().qualifiedName();
         boolean debug = debug(parseResult);
+        if (ex instanceof java.io.IOException) {
+            // A file the user named cannot be read or written: their input, not our bug.
+            commandLine.getErr().println(command + ": " + describe((java.io.IOException) ex));
+            if (debug) {
+                ex.printStackTrace(commandLine.getErr());
+            }
+            return BAD_INPUT;
+        }
         if (ex instanceof RitzwerkException || ex instanceof IllegalArgumentException) {
             commandLine.getErr().println(command + ": " + ex.getMessage());
             if (debug) {
@@ -41,5 +49,20 @@ final class ErrorReporter implements CommandLine.IExecutionExceptionHandler {
             }
         }
         return System.getenv("RITZWERK_DEBUG") != null;
+    }
+
+    /** @return a one-line account of a file-system failure, naming the path */
+    static String describe(java.io.IOException e) {
+        if (e instanceof java.nio.file.NoSuchFileException) {
+            return "no such file or folder: " + e.getMessage();
+        }
+        if (e instanceof java.nio.file.AccessDeniedException) {
+            return "permission denied: " + e.getMessage();
+        }
+        if (e instanceof java.nio.file.FileSystemException) {
+            java.nio.file.FileSystemException f = (java.nio.file.FileSystemException) e;
+            return "cannot use " + f.getFile() + (f.getReason() == null ? "" : ": " + f.getReason());
+        }
+        return "input/output error: " + e.getMessage();
     }
 }

@@ -148,4 +148,16 @@ class CliTest {
         assertTrue(debug.err().contains("unknown unit 'furlongs'"), debug.err());
         assertTrue(debug.err().contains("\tat org.ritzwerk"), debug.err());
     }
+
+    @Test
+    void filesThatCannotBeReadOrWrittenAreInputErrors(@org.junit.jupiter.api.io.TempDir java.nio.file.Path dir) {
+        String missingFolder = dir.resolve("no-such-folder").resolve("out.csv").toString();
+        Run synth = run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm", "--temperature", "8000",
+                "--out", missingFolder);
+        assertEquals(2, synth.code());
+        assertEquals("ritzwerk synth: no such file or folder: " + missingFolder, synth.err().strip());
+        Run calibrate = run("calibrate", dir.resolve("absent.csv").toString(), "--lamp", "Ne I");
+        assertEquals(2, calibrate.code());
+        assertTrue(calibrate.err().contains("absent.csv: no such file"), calibrate.err());
+    }
 }
