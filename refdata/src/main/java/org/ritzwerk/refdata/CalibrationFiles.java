@@ -138,11 +138,8 @@ public final class CalibrationFiles {
         String text;
         try {
             text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (java.nio.file.NoSuchFileException e) {
-            throw new DataFileException(DataFileException.UNREADABLE, source, List.of(), "no such file");
         } catch (IOException e) {
-            throw new DataFileException(DataFileException.UNREADABLE, source, List.of(),
-                    "cannot read: " + e.getMessage());
+            throw DataFileException.unreadable(source, e);
         }
         return parse(source, text);
     }

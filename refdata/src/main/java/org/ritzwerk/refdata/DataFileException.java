@@ -30,6 +30,18 @@ public final class DataFileException extends RitzwerkException {
         this.problems = List.copyOf(problems);
     }
 
+    /**
+     * @param source the file name
+     * @param cause  why it could not be read
+     * @return an {@link #UNREADABLE} failure: "no such file" for a missing one, else the reason
+     */
+    public static DataFileException unreadable(String source, java.io.IOException cause) {
+        String summary = cause instanceof java.nio.file.NoSuchFileException ? "no such file"
+                : cause instanceof java.nio.file.AccessDeniedException ? "permission denied"
+                : "cannot read: " + cause.getMessage();
+        return new DataFileException(UNREADABLE, source, List.of(), summary);
+    }
+
     private static String message(String source, List<DataProblem> problems, String summary) {
         if (problems.isEmpty()) {
             return source + ": " + summary;

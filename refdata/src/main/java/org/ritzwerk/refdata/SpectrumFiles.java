@@ -72,11 +72,8 @@ public final class SpectrumFiles {
         String text;
         try {
             text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (java.nio.file.NoSuchFileException e) {
-            throw new DataFileException(DataFileException.UNREADABLE, file.toString(), List.of(), "no such file");
         } catch (IOException e) {
-            throw new DataFileException(DataFileException.UNREADABLE, file.toString(), List.of(),
-                    "cannot read: " + e.getMessage());
+            throw DataFileException.unreadable(file.toString(), e);
         }
         String source = file.toString();
         return text.stripLeading().startsWith("{") ? json(source, text) : csv(source, text);

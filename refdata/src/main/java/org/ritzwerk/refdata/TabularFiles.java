@@ -313,7 +313,7 @@ final class TabularFiles {
                 return decode(in, name);
             }
         } catch (IOException e) {
-            throw new DataFileException(DataFileException.UNREADABLE, name, List.of(), "cannot read: " + e.getMessage());
+            throw DataFileException.unreadable(name, e);
         }
     }
 
