@@ -118,6 +118,12 @@ final class CalibrateCommand implements Callable<Integer> {
     @Option(names = "--plot", paramLabel = "PNG", description = "Draw the residuals of the fitted lines against pixel.")
     Path plot;
 
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
+            description = {"text (the report), csv (the fitted lines: pixel, pixel_sigma, line,",
+                "wavelength_nm, solution_nm, residual_nm, residual_pixels, used) or json (the",
+                "calibration document, as --out writes it). Default: ${DEFAULT-VALUE}."})
+    Table.Format format;
+
     @Option(names = "--apply", paramLabel = "CALIBRATION",
             description = "Instead of calibrating: give SPECTRUM_FILE the wavelengths of this saved solution.")
     Path apply;
@@ -149,7 +155,19 @@ final class CalibrateCommand implements Callable<Integer> {
         // Refine through the line identifier: every peak against every line, assigned optimally.
         match = IdentifierRefinement.refine(match, match.fit(fit), peaks, lampSet.lines, lampSet.species(), tolerance);
         DispersionSolution solution = match.fit(fit);
-        report(spectrum, peaks, match, solution, lampSet);
+        switch (format) {
+            case json:
+                spec.commandLine().getOut().print(CalibrationFiles.toJson(solution, spectrum.pixels(),
+                        describe(spectrum, lampSet), lampSet.labelsOf(match)));
+                spec.commandLine().getOut().flush();
+                break;
+            case csv:
+                pairs(solution, match, lampSet).write(spec.commandLine().getOut(), format);
+                break;
+            default:
+                report(spectrum, peaks, match, solution, lampSet);
+                break;
+        }
         if (out != null) {
             CalibrationFiles.write(out, solution, spectrum.pixels(), describe(spectrum, lampSet), lampSet.labelsOf(match));
         }
@@ -313,6 +331,25 @@ final class CalibrateCommand implements Callable<Integer> {
                     saturated);
         }
         w.flush();
+    }
+
+    private static Table pairs(DispersionSolution solution, LampMatch match, LampSet lampSet) {
+        Table table = new Table(List.of(
+                Table.Column.number("pixel", "pixel", "%.3f"),
+                Table.Column.number("pixel_sigma", "+-", "%.3f"),
+                Table.Column.text("line", "line"),
+                Table.Column.number("wavelength_nm", "line nm", "%.5f"),
+                Table.Column.number("solution_nm", "solution nm", "%.5f"),
+                Table.Column.number("residual_nm", "resid nm", "%.5f"),
+                Table.Column.number("residual_pixels", "resid px", "%.4f"),
+                Table.Column.text("used", "used")));
+        List<String> labels = lampSet.labelsOf(match);
+        for (int i = 0; i < solution.size(); i++) {
+            table.add(solution.pixel(i), match.pixelSigma(i), labels.get(i), solution.wavelength(i),
+                    solution.wavelengthAt(solution.pixel(i)), solution.residualNm(i), solution.residualPixels(i),
+                    solution.isRejected(i) ? "false" : "true");
+        }
+        return table;
     }
 
     private void drawResiduals(DispersionSolution solution) throws IOException {

@@ -117,6 +117,22 @@ class CalibrateCommandTest {
     }
 
     @Test
+    void csvAndJsonForScripts(@TempDir Path dir) throws IOException {
+        Path spectrum = lampSpectrum(dir, 15, false);
+        CliTest.Run json = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--format", "json");
+        assertEquals(0, json.code(), json.err());
+        Path file = dir.resolve("from-stdout.json");
+        Files.writeString(file, json.out());
+        DispersionSolution solution = CalibrationFiles.read(file).solution();
+        assertEquals(truth(1000), solution.wavelengthAt(1000), 0.05 * 0.056);
+        CliTest.Run csv = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--format", "csv");
+        assertEquals(0, csv.code(), csv.err());
+        String[] rows = csv.out().split("\n");
+        assertEquals("pixel,pixel_sigma,line,wavelength_nm,solution_nm,residual_nm,residual_pixels,used", rows[0]);
+        assertTrue(rows.length > 10, csv.out());
+    }
+
+    @Test
     void failuresSayWhatWentWrong(@TempDir Path dir) throws IOException {
         Path spectrum = lampSpectrum(dir, 14, false);
         // The wrong lamp: argon lines for a neon spectrum.
