@@ -113,6 +113,12 @@ final class DemoScenario {
         for (Path file : results.files) {
             out.println("  " + file.getFileName());
         }
+        out.println();
+        out.println("Next, with the commands themselves:");
+        out.println("  ritzwerk calibrate " + folder.resolve("neon-lamp.csv") + " --lamp \"Ne I\"");
+        out.println("  ritzwerk identify " + folder.resolve("discharge-peaks.csv")
+                + " --species \"H I,D I,He II\" --search-velocity 50 --tolerance \"0.06 nm\"");
+        out.println("  (the unresolved H+D pairs sit between the H and D lines, hence the wide tolerance)");
         out.flush();
         return results;
     }
@@ -271,6 +277,9 @@ final class DemoScenario {
             flux[k] = Math.max(peaks.flux(k), 1e-9);
         }
         PeakList peakList = PeakList.of(nm, nmSigma, flux, Unit.NANOMETRE, Medium.air());
+        Path peaksFile = folder.resolve("discharge-peaks.csv");
+        writePeaks(peaksFile, peaks, solution, nm, nmSigma);
+        results.files.add(peaksFile);
         // First pass: every line of H I, D I and He II on its own, with a velocity search.
         LineCatalog catalog = catalog(ions, 0, 0, java.util.Set.of());
         Identifier identifier = Identifier.of(Tolerance.absolute(0.03e-9));
@@ -541,6 +550,22 @@ final class DemoScenario {
         LineTable table = HydrogenLikeLines.of(model).multiplets(3, PhysicalConstants.C / 700e-9,
                 PhysicalConstants.C / 600e-9);
         return table.frequency(0);
+    }
+
+    /** The discharge's peaks in the ritzwerk-peaks format, for {@code ritzwerk identify}. */
+    private static void writePeaks(Path file, Peaks peaks, DispersionSolution solution, double[] nm, double[] nmSigma)
+            throws IOException {
+        StringBuilder text = new StringBuilder("# ritzwerk-peaks 1\n# id: wrenfield-discharge\n")
+                .append("# title: peaks of the H-D-He discharge (demo)\n")
+                .append("# source: ritzwerk demo, invented scenario, calibrated with calibration.json\n")
+                .append("# provenance: computed\n# version: 1\n# position-unit: nm\n# medium: air\n")
+                .append("position,uncertainty,intensity,width\n");
+        for (int k = 0; k < nm.length; k++) {
+            double width = peaks.fwhm(k) * Math.abs(solution.dispersionAt(peaks.centre(k)));
+            text.append(String.format(Locale.ROOT, "%.5f,%.5f,%.6g,%.5f%n", nm[k], nmSigma[k],
+                    Math.max(peaks.flux(k), 1e-9), width));
+        }
+        Files.writeString(file, text, StandardCharsets.UTF_8);
     }
 
     private static void writeCounts(Path file, double[] counts, String what) throws IOException {

@@ -45,13 +45,17 @@ class DemoTest {
         assertEquals(17.04, r.rydbergMicrowaveGhz.get(1), 0.05, report);
         assertEquals(480.0, r.rydbergSecondLaserNm.get(1), 0.5, report);
         for (String name : new String[] {"neon-lamp.csv", "calibration.json", "calibration-residuals.png",
-            "discharge.csv", "discharge.png"}) {
+            "discharge.csv", "discharge.png", "discharge-peaks.csv"}) {
             assertTrue(Files.size(dir.resolve("out").resolve(name)) > 100, name);
         }
         // The files it writes are inputs the commands take: calibrate the lamp file again.
         CliTest.Run again = CliTest.run("calibrate", dir.resolve("out").resolve("neon-lamp.csv").toString(),
                 "--lamp", "Ne I");
         assertEquals(0, again.code(), again.err());
+        CliTest.Run identify = CliTest.run("identify", dir.resolve("out").resolve("discharge-peaks.csv").toString(),
+                "--species", "H I,D I,He II", "--search-velocity", "50", "--tolerance", "0.06 nm");
+        assertEquals(0, identify.code(), identify.err());
+        assertTrue(identify.out().contains("8 peaks: 8 matched"), identify.out());
     }
 
     @Test
