@@ -198,40 +198,6 @@ final class DemoScenario {
         return solution;
     }
 
-    // ---- 3. A rubidium Rydberg sensor ------------------------------------------------------
-
-    private void rydbergSensor(Results results) {
-        out.println("3. Planning a rubidium Rydberg electrometer");
-        out.println("   The lab's next project senses microwave fields with Rb-87 atoms excited to Rydberg");
-        out.println("   states by two lasers (5s1/2 -> 5p3/2 -> nd5/2). For three candidate states, Ritzwerk gives");
-        out.println("   the laser wavelengths, the microwave line to the nearest p state, its dipole matrix element");
-        out.println("   and the lifetimes at 0 K and in a 300 K enclosure.");
-        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
-        State ground = State.parse("5s1/2");
-        State intermediate = State.parse("5p3/2");
-        out.printf(Locale.ROOT, "   %-8s %12s %12s %10s %14s %12s %10s %10s%n", "state", "laser 1 nm", "laser 2 nm",
-                "to", "microwave GHz", "<d> e a0", "tau0 us", "tau300 us");
-        for (int n : new int[] {40, 50, 60}) {
-            State rydberg = State.of(n, 2, 5);
-            LadderExcitation ladder = rb.ladder(ground, intermediate, rydberg);
-            // The dipole-allowed p3/2 neighbour just below: (n+1)p3/2 lies under nd for rubidium.
-            State partner = State.of(n + 1, 1, 3);
-            double ghz = rb.frequencyHz(partner, rydberg) / 1e9;
-            double dipole = rb.reducedDipole(rydberg, partner);
-            double tau0 = rb.radiativeLifetime(rydberg) * 1e6;
-            double tau300 = rb.effectiveLifetime(rydberg, 300) * 1e6;
-            out.printf(Locale.ROOT, "   %-8s %12.4f %12.4f %10s %14.4f %12.1f %10.1f %10.1f%n", rydberg.label(),
-                    ladder.firstMetres(Medium.air()) * 1e9, ladder.secondMetres(Medium.air()) * 1e9, partner.label(),
-                    Math.abs(ghz), Math.abs(dipole), tau0, tau300);
-            results.rydbergMicrowaveGhz.add(Math.abs(ghz));
-            results.rydbergSecondLaserNm.add(ladder.secondMetres(Medium.air()) * 1e9);
-        }
-        out.println("   Laser wavelengths in standard air; the dipole is the reduced matrix element (Edmonds'");
-        out.println("   convention); lifetimes from the Coulomb-approximation wavefunctions. Laser light and the");
-        out.println("   lamps above need the usual protection: see the README's safety section.");
-        out.println();
-    }
-
     // ---- 2. The discharge -----------------------------------------------------------------
 
     private void discharge(PixelGrid detector, DispersionSolution solution, Results results) throws IOException {
@@ -550,6 +516,40 @@ final class DemoScenario {
         LineTable table = HydrogenLikeLines.of(model).multiplets(3, PhysicalConstants.C / 700e-9,
                 PhysicalConstants.C / 600e-9);
         return table.frequency(0);
+    }
+
+    // ---- 3. A rubidium Rydberg sensor ------------------------------------------------------
+
+    private void rydbergSensor(Results results) {
+        out.println("3. Planning a rubidium Rydberg electrometer");
+        out.println("   The lab's next project senses microwave fields with Rb-87 atoms excited to Rydberg");
+        out.println("   states by two lasers (5s1/2 -> 5p3/2 -> nd5/2). For three candidate states, Ritzwerk gives");
+        out.println("   the laser wavelengths, the microwave line to the nearest p state, its dipole matrix element");
+        out.println("   and the lifetimes at 0 K and in a 300 K enclosure.");
+        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        State ground = State.parse("5s1/2");
+        State intermediate = State.parse("5p3/2");
+        out.printf(Locale.ROOT, "   %-8s %12s %12s %10s %14s %12s %10s %10s%n", "state", "laser 1 nm", "laser 2 nm",
+                "to", "microwave GHz", "<d> e a0", "tau0 us", "tau300 us");
+        for (int n : new int[] {40, 50, 60}) {
+            State rydberg = State.of(n, 2, 5);
+            LadderExcitation ladder = rb.ladder(ground, intermediate, rydberg);
+            // The dipole-allowed p3/2 neighbour just below: (n+1)p3/2 lies under nd for rubidium.
+            State partner = State.of(n + 1, 1, 3);
+            double ghz = rb.frequencyHz(partner, rydberg) / 1e9;
+            double dipole = rb.reducedDipole(rydberg, partner);
+            double tau0 = rb.radiativeLifetime(rydberg) * 1e6;
+            double tau300 = rb.effectiveLifetime(rydberg, 300) * 1e6;
+            out.printf(Locale.ROOT, "   %-8s %12.4f %12.4f %10s %14.4f %12.1f %10.1f %10.1f%n", rydberg.label(),
+                    ladder.firstMetres(Medium.air()) * 1e9, ladder.secondMetres(Medium.air()) * 1e9, partner.label(),
+                    Math.abs(ghz), Math.abs(dipole), tau0, tau300);
+            results.rydbergMicrowaveGhz.add(Math.abs(ghz));
+            results.rydbergSecondLaserNm.add(ladder.secondMetres(Medium.air()) * 1e9);
+        }
+        out.println("   Laser wavelengths in standard air; the dipole is the reduced matrix element (Edmonds'");
+        out.println("   convention); lifetimes from the Coulomb-approximation wavefunctions. Laser light and the");
+        out.println("   lamps above need the usual protection: see the README's safety section.");
+        out.println();
     }
 
     /** The discharge's peaks in the ritzwerk-peaks format, for {@code ritzwerk identify}. */
