@@ -115,8 +115,8 @@ final class DemoScenario {
         }
         out.println();
         out.println("Next, with the commands themselves:");
-        out.println("  ritzwerk calibrate " + folder.resolve("neon-lamp.csv") + " --lamp \"Ne I\"");
-        out.println("  ritzwerk identify " + folder.resolve("discharge-peaks.csv")
+        out.println("  ./ritzwerk calibrate " + folder.resolve("neon-lamp.csv") + " --lamp \"Ne I\"");
+        out.println("  ./ritzwerk identify " + folder.resolve("discharge-peaks.csv")
                 + " --species \"H I,D I,He II\" --search-velocity 50 --tolerance \"0.06 nm\"");
         out.println("  (the unresolved H+D pairs sit between the H and D lines, hence the wide tolerance)");
         out.flush();
