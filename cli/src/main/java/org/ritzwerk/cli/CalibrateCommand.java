@@ -22,7 +22,6 @@ import org.ritzwerk.engine.calibrate.PeakFinder;
 import org.ritzwerk.engine.calibrate.PeakFlag;
 import org.ritzwerk.engine.calibrate.Peaks;
 import org.ritzwerk.medium.Medium;
-import org.ritzwerk.quantity.QuantityText;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.CalibrationFiles;
 import org.ritzwerk.refdata.DataRegistry;
@@ -196,8 +195,8 @@ final class CalibrateCommand implements Callable<Integer> {
                 throw new IllegalArgumentException("give both --from and --to, or neither");
             }
             Medium m = AxisMedium.of(medium);
-            double a = QuantityText.standard().parseSpectral(from).toWavelength(m).inMetres() * 1e9;
-            double b = QuantityText.standard().parseSpectral(to).toWavelength(m).inMetres() * 1e9;
+            double a = AxisMedium.nanometres(from, m);
+            double b = AxisMedium.nanometres(to, m);
             lo = Math.min(a, b);
             hi = Math.max(a, b);
         }

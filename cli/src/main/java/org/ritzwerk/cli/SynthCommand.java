@@ -29,7 +29,6 @@ import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
-import org.ritzwerk.quantity.QuantityText;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.NuclearData;
 import picocli.CommandLine.Command;
@@ -295,8 +294,8 @@ final class SynthCommand implements Callable<Integer> {
         if (from == null || to == null) {
             throw new IllegalArgumentException("give --from and --to (or --dispersion)");
         }
-        double oneEnd = axisNanometres(from, axisMedium);
-        double otherEnd = axisNanometres(to, axisMedium);
+        double oneEnd = AxisMedium.nanometres(from, axisMedium);
+        double otherEnd = AxisMedium.nanometres(to, axisMedium);
         double lo = Math.min(oneEnd, otherEnd);
         double hi = Math.max(oneEnd, otherEnd);
         if (!(hi > lo)) {
@@ -473,12 +472,6 @@ final class SynthCommand implements Callable<Integer> {
             }
         }
         option("--continuum-counts", () -> builder.continuum(density, continuumCounts));
-    }
-
-    /** A --from or --to value (any spectral unit) as a wavelength in nm in the axis medium. */
-    private static double axisNanometres(String quantity, Medium axisMedium) {
-        double hertz = QuantityText.standard().parseSpectral(quantity).toFrequency().inHertz();
-        return axisMedium.fromVacuum(PhysicalConstants.C / hertz) * 1e9;
     }
 
     private void writeSpectrum(SyntheticSpectrum spectrum) throws IOException {
