@@ -51,8 +51,13 @@ class NoRepositoryAsSourceTest {
             findings.addAll(guard.scan(file, lines(path)));
         }
         assertTrue(scanned > 50, "scanned only " + scanned + " files under " + root + ": is this the project root?");
+        // The whole list also goes to a file: a long failure message may be cut by the test report.
+        Path report = Path.of("target", "repository-source-findings.txt");
+        Files.createDirectories(report.getParent());
+        Files.write(report, findings.stream().map(Object::toString).collect(Collectors.toList()), StandardCharsets.UTF_8);
         assertTrue(findings.isEmpty(), () -> findings.size() + " line(s) name a repository or commit as a source "
-                + "(cite the publication, handbook or library version instead):\n"
+                + "(cite the publication, handbook or library version instead; full list in " + report.toAbsolutePath()
+                + "):\n"
                 + findings.stream().map(Object::toString).collect(Collectors.joining("\n")));
     }
 
