@@ -95,6 +95,19 @@ class AirVacuumTest {
     }
 
     @Test
+    void standardAirAgreesWithCiddorsStandardAirUpToItsLimit() {
+        // StandardAir's Javadoc: from 300 nm to its 2.5 um limit, Morton 2000 eq. 8 and Ciddor's
+        // standard-air dispersion (Ciddor 1996 eq. 1, 450 ppm CO2) differ by < 2.1e-5 of n - 1,
+        // which is < 6e-9 in n (both formulas evaluated as written; no outside value).
+        for (double lambda = 300e-9; lambda <= 2.5e-6; lambda += 10e-9) {
+            double morton = StandardAir.INSTANCE.refractiveIndex(lambda) - 1;
+            double ciddor = Ciddor1996.STANDARD_AIR.refractiveIndex(lambda) - 1;
+            assertTrue(Math.abs(morton - ciddor) < 2.1e-5 * ciddor, "at " + lambda + ": " + morton + " vs " + ciddor);
+            assertTrue(Math.abs(morton - ciddor) < 6e-9, "at " + lambda);
+        }
+    }
+
+    @Test
     void ciddorDensityScalingFollowsTheGasLaw() {
         // Dry air: n - 1 scales with density p / (Z T) (Ciddor 1996, eq. 5 and 12); at 20 C and
         // 100 kPa against 15 C and 101.325 kPa the ratio of refractivities is p T0 / (p0 T) to

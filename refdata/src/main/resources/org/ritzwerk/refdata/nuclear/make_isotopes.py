@@ -359,7 +359,7 @@ def header_lines(versions, rows):
     return f"""\
 # id: nuclear-isotopes
 # title: Nuclear masses, spins, moments and charge radii of {len(rows)} isotopes
-# source: M. Wang et al., Chin. Phys. C 45, 030003 (2021) (AME2020 masses); N. J. Stone, INDC(NDS)-0794 (2019) and CODATA 2018 (moments); I. Angeli and K. P. Marinova, At. Data Nucl. Data Tables 99, 69 (2013) and CODATA 2018 (radii); Blue Obelisk Data Repository 10, Debian package bodr {versions['bodr']} (spins); the source keys below say which applies to each value
+# source: M. Wang et al., Chin. Phys. C 45, 030003 (2021) (AME2020 masses); N. J. Stone, INDC(NDS)-0794 (2019) and CODATA 2018 (moments); I. Angeli and K. P. Marinova, At. Data Nucl. Data Tables 99, 69 (2013) and CODATA 2018 (radii); Blue Obelisk Data Repository 10, Debian package bodr {versions['bodr']} (spins); the file's source keys say which applies to each value
 # provenance: published
 # version: 2021 (AME2020; moments 2019; radii 2013; CODATA 2018; bodr 10)
 # Ritzwerk nuclear reference data: one row per isotope.
