@@ -218,7 +218,7 @@ def valid_methods():
 
 # The published formula behind each of specutils' method names, in our own notation:
 # s = 1 / lambda_vac in um^-1 (vacuum wavenumber), n - 1 = refractivity of dry air.
-# The same coefficients drive mp_refr below, which checks specutils' float64 results.
+# mp_refr below evaluates the same formulas in mpmath to check specutils' float64 results.
 PUBLISHED_FORMULAS = {
     'Griesen2006': (
         "E. W. Greisen, M. R. Calabretta, F. G. Valdes, S. L. Allen, Astron. Astrophys. 446, 747 (2006)"
@@ -242,6 +242,8 @@ PUBLISHED_FORMULAS = {
         "n - 1 = [5.792105e-2 / (238.0185 - s^2) + 1.67917e-3 / (57.362 - s^2)] (1 + 0.534e-6 (x_CO2 - 450)),"
         " x_CO2 in ppm"),
 }
+
+
 def mp_refr(lam_angstrom, method, co2=None):
     """The published formulas of PUBLISHED_FORMULAS in mpmath (our own check of the library's results)."""
     s2 = (1 / (mpmath.mpf(lam_angstrom) / 10000)) ** 2
