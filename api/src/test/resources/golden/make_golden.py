@@ -14,10 +14,13 @@ It (re)writes, beside this script, deterministically:
 
 Nothing here is computed by Ritzwerk itself: constants come from scipy.constants,
 unit conversions are done in mpmath (40 digits) from the exact SI defining
-constants, and air/vacuum wavelengths come from specutils.utils.wcs_utils.
+constants, and air/vacuum wavelengths come from specutils.utils.wcs_utils
+(vac_to_air, air_to_vac), whose results are checked against our own mpmath
+evaluation of the published refractive-index formulas named in the headers.
+Each file declares its tolerance in '# tolerance[ <label>]: <value> relative'
+lines, which the Java tests read (org.ritzwerk.testing.Golden.tolerance).
 """
 
-import hashlib
 import inspect
 import os
 import subprocess
@@ -127,7 +130,9 @@ def make_codata():
         " unit = unit string as given by scipy.",
         "Values printed with Python repr() (shortest round-trip of the float64 scipy holds);"
         " this reproduces the decimal digits of the CODATA table.",
-        "Tolerance: exact (relative 0): compare digit for digit / as the same float64.",
+        "tolerance: 0 relative (exact: every value and uncertainty compares as the same float64, digit for digit)",
+        "tolerance derived: 5e-14 relative (R_inf h c in eV and R_inf c in Hz recomputed from the printed R_inf,"
+        " which CODATA rounds to 14 digits, i.e. by up to 4.6e-14 relative)",
         "CAUTION: for the exact-but-derived 'relationship' entries CODATA's ASCII table prints"
         " truncated digits followed by '...' and scipy parses only the printed digits;",
         "so these 'exact' (uncertainty 0) values are truncated to 10 significant digits and are"
@@ -193,7 +198,7 @@ def make_spectral():
         "Rows 1-45: energy_ev = 10^(m/4) for m = -24..20 (1e-6 eV radio .. 1e5 eV X-ray);"
         " then round inputs, in order: 1 nm; 500 nm (vacuum); 1 cm^-1; 1 THz; 1 J; 1 K."
         " (1 eV is row 25.)",
-        "Tolerance: 1e-14 relative.",
+        "tolerance: 1e-14 relative (every column, converted from every other)",
     ]
     write_csv("spectral-conversions.csv", comments,
               ["wavelength_vacuum_m", "wavenumber_per_m", "frequency_hz", "energy_j",
@@ -204,46 +209,43 @@ def make_spectral():
 # c. air <-> vacuum with specutils
 # ---------------------------------------------------------------------------
 def valid_methods():
+    """The method names refraction_index accepts, read from the library (not hard-coded)."""
     src = inspect.getsource(wcs_utils.refraction_index)
     start = src.index("VALID_METHODS = [")
     end = src.index("]", start)
     return eval(src[start + len("VALID_METHODS = "):end + 1])  # list literal from source
 
 
-def method_source_lines(method):
-    """Verbatim source lines of the branch for `method` in specutils' refraction_index."""
-    src = inspect.getsource(wcs_utils.refraction_index).splitlines()
-    out, inside = [], False
-    for line in src:
-        s = line.strip()
-        if s.startswith("sigma2 =") or s.startswith("return refr"):
-            continue
-        if s.startswith(("if method ==", "elif method ==", "else:")):
-            inside = ("'%s'" % method.lower()) in s
-        if inside:
-            out.append(line.rstrip())
-    assert out, method
-    return out
-
-
-def refraction_source_common():
-    src = inspect.getsource(wcs_utils.refraction_index).splitlines()
-    return [l.rstrip() for l in src if l.strip().startswith(("sigma2 =", "return refr"))]
-
-
-def air_to_vac_source_lines():
-    src = inspect.getsource(wcs_utils.air_to_vac).splitlines()
-    start = next(i for i, l in enumerate(src) if "VALID_SCHEMES" in l)
-    return [l.rstrip() for l in src[start:]]
-
-
-def vac_to_air_source_lines():
-    src = inspect.getsource(wcs_utils.vac_to_air).splitlines()
-    return [l.rstrip() for l in src if l.strip().startswith(("refr =", "return"))]
+# The published formula behind each of specutils' method names, in our own notation:
+# s = 1 / lambda_vac in um^-1 (vacuum wavenumber), n - 1 = refractivity of dry air.
+# mp_refr below evaluates the same formulas in mpmath to check specutils' float64 results.
+PUBLISHED_FORMULAS = {
+    'Griesen2006': (
+        "E. W. Greisen, M. R. Calabretta, F. G. Valdes, S. L. Allen, Astron. Astrophys. 446, 747 (2006)"
+        " (the library spells the method 'Griesen2006')",
+        "n - 1 = 1e-6 (287.6155 + 1.62887 s^2 + 0.01360 s^4)"),
+    'Edlen1953': (
+        "B. Edlen, J. Opt. Soc. Am. 43, 339 (1953) (dispersion of standard air; the IAU standard)",
+        "n - 1 = 6.4328e-5 + 2.94981e-2 / (146 - s^2) + 2.5540e-4 / (41 - s^2)"),
+    'Edlen1966': (
+        "B. Edlen, Metrologia 2, 71 (1966)",
+        "n - 1 = 8.34213e-5 + 2.406030e-2 / (130 - s^2) + 1.5997e-4 / (38.9 - s^2)"),
+    'Morton2000': (
+        "D. C. Morton, Astrophys. J. Suppl. Ser. 130, 403 (2000), eq. (8), after K. P. Birch and"
+        " M. J. Downs, Metrologia 30, 155 (1993) and 31, 315 (1994)",
+        "n - 1 = 8.34254e-5 + 2.406147e-2 / (130 - s^2) + 1.5998e-4 / (38.9 - s^2)"),
+    'PeckReeder1972': (
+        "E. R. Peck and K. Reeder, J. Opt. Soc. Am. 62, 958 (1972)",
+        "n - 1 = 5.791817e-2 / (238.0185 - s^2) + 1.67909e-3 / (57.362 - s^2)"),
+    'Ciddor1996': (
+        "P. E. Ciddor, Appl. Opt. 35, 1566 (1996), eqs. (1) and (2) (standard dry air, 15 C, 101325 Pa)",
+        "n - 1 = [5.792105e-2 / (238.0185 - s^2) + 1.67917e-3 / (57.362 - s^2)] (1 + 0.534e-6 (x_CO2 - 450)),"
+        " x_CO2 in ppm"),
+}
 
 
 def mp_refr(lam_angstrom, method, co2=None):
-    """Same formulas as specutils, evaluated in mpmath (for the accuracy check only)."""
+    """The published formulas of PUBLISHED_FORMULAS in mpmath (our own check of the library's results)."""
     s2 = (1 / (mpmath.mpf(lam_angstrom) / 10000)) ** 2
     m = method.lower()
     if m == 'griesen2006':
@@ -281,9 +283,8 @@ def make_air_vacuum():
     methods = valid_methods()
     sig = inspect.signature(wcs_utils.refraction_index)
     has_co2 = "co2" in sig.parameters
-    wcs_file = wcs_utils.__file__
-    with open(wcs_file, "rb") as fh:
-        sha = hashlib.sha256(fh.read()).hexdigest()
+    missing = [m for m in methods if m not in PUBLISHED_FORMULAS]
+    assert not missing, "no published formula recorded for method(s) %s" % missing
 
     # variants: (column tag, method, co2 argument)
     variants = [(m, m, None) for m in methods]
@@ -292,22 +293,19 @@ def make_air_vacuum():
         variants.append(("Ciddor1996_co2_400ppm", "Ciddor1996", 400))
 
     formula_comments = [
-        "specutils source: %s (sha256 %s)" % (wcs_file, sha),
-        "refraction_index(wavelength, method, co2) signature: %s ; valid methods: %s"
-        % (sig, ", ".join(methods)),
-        "Verbatim source lines of specutils.utils.wcs_utils.refraction_index (wavelength ="
-        " VACUUM wavelength; sigma2 in um^-2):",
+        "Refractive index n of dry air at each method's fixed standard conditions, from specutils %s"
+        " specutils.utils.wcs_utils.refraction_index(wavelength, method, co2);" % specutils.__version__,
+        "  the library evaluates n at the VACUUM wavelength and has no temperature, pressure or humidity"
+        " arguments. Published formula of each method",
+        "  (our notation; s = 1 / lambda_vac in um^-1):",
     ]
-    formula_comments += ["    " + l for l in refraction_source_common()[:1]]
     for m in methods:
-        formula_comments.append("  method '%s':" % m)
-        formula_comments += ["    " + l for l in method_source_lines(m)]
-    formula_comments += ["    " + l for l in refraction_source_common()[1:]]
+        citation, formula = PUBLISHED_FORMULAS[m]
+        formula_comments.append("  %s: %s;" % (m, citation))
+        formula_comments.append("    %s" % formula)
     formula_comments += [
-        "Note: every method is dry air at fixed standard conditions; there are no temperature,"
-        " pressure or humidity arguments. Ciddor1996 only has the CO2 scaling shown above;",
-        "  co2=None (default) means no scaling i.e. Ciddor's 450 ppm standard air (note `if co2:`"
-        " so co2=0 is also treated as 'not given'). co2=450 therefore equals the default.",
+        "  Ciddor1996 with co2 not given (or 0) is Ciddor's 450 ppm standard air, so co2=450 gives the same"
+        " values as the plain Ciddor1996 column.",
     ]
 
     # ---------------- vacuum -> air ----------------
@@ -329,21 +327,20 @@ def make_air_vacuum():
         rows.append(row)
     header = ["vacuum_angstrom"] + ["air_%s_angstrom" % t for t, _, _ in variants]
     comments = common_header() + [
-        "Vacuum -> air wavelengths computed by specutils %s:"
-        " specutils.utils.wcs_utils.vac_to_air(Quantity(vacuum_angstrom, u.AA), method=<method>, co2=<co2>)"
-        % specutils.__version__,
-        "  called one wavelength at a time with plain float64 values; results printed with repr().",
-        "vac_to_air source (verbatim):",
-    ] + ["    " + l for l in vac_to_air_source_lines()] + formula_comments + [
+        "Vacuum -> air wavelengths from specutils %s, function specutils.utils.wcs_utils.vac_to_air("
+        "Quantity(vacuum_angstrom, u.AA), method=<method>, co2=<co2>)," % specutils.__version__,
+        "  which returns lambda_vac / n(lambda_vac); called one wavelength at a time with plain float64"
+        " values; results printed with repr().",
+    ] + formula_comments + [
         "Columns: vacuum_angstrom = input vacuum wavelength [Angstrom];"
         " air_<method>_angstrom = air wavelength [Angstrom] from vac_to_air(method=<method>, co2=None);",
         "  air_Ciddor1996_co2_450ppm_angstrom = method 'Ciddor1996' with co2=450 (ppm);"
         " air_Ciddor1996_co2_400ppm_angstrom = method 'Ciddor1996' with co2=400 (ppm).",
         "Inputs: 2000..17000 Angstrom every 250 Angstrom plus 4862.721 and 6564.614 (H-beta/H-alpha vacuum), sorted.",
-        "Check: max relative deviation of specutils' float64 result from the same formula in mpmath (40 digits): "
+        "Check: max relative deviation of the library's float64 result from the published formula above in mpmath (40 digits): "
         + "; ".join("%s %s" % (t, mpmath.nstr(max_rel[t], 2)) for t, _, _ in variants),
-        "Tolerance: 1e-14 relative (same formula; differences are float64 rounding only).",
-        "NOTE: Griesen2006 (specutils' default) has ~5% larger refractivity (n-1) than the other"
+        "tolerance: 1e-14 relative (every air_* column; same formula, differences are float64 rounding only)",
+        "NOTE: Griesen2006 (the library's default method) has ~5% larger refractivity (n-1) than the other"
         " methods (different standard conditions) -- not interchangeable with the IAU Edlen1953 standard.",
     ]
     write_csv("air-vacuum-specutils.csv", comments, header, rows)
@@ -376,20 +373,22 @@ def make_air_vacuum():
         header += ["vac_%s_iteration_angstrom" % t, "vac_%s_inversion_angstrom" % t]
     header.append("vac_Piskunov_angstrom")
     comments = common_header() + [
-        "Air -> vacuum wavelengths computed by specutils %s:"
-        " specutils.utils.wcs_utils.air_to_vac(Quantity(air_angstrom, u.AA), scheme=<scheme>, method=<method>, co2=<co2>)"
-        % specutils.__version__,
-        "  with the default precision=1e-12 and maxiter=30, called one wavelength at a time"
-        " (plain float64); results printed with repr().",
-        "Schemes (specutils' own words, from the docstring): 'inversion' (the default) - result is simply the"
-        " inversion (1 / n) of the refraction index of air. Griesen et al. (2006) report that the error",
-        "  in naively inverting is less than 10^-9.  'iteration' - uses an iterative scheme to invert the"
-        " index of refraction.  'Piskunov' - uses an analytical solution derived by Nikolai Piskunov",
-        "  and used by the Vienna Atomic Line Database (VALD) (own coefficients; method/co2 ignored).",
-        "  'iteration' stops when |max(diff)| < precision where diff is in the INPUT UNIT (here Angstrom),"
-        " i.e. an absolute 1e-12 Angstrom criterion (~1e-16 relative), not a fractional one.",
-        "air_to_vac source (verbatim, from VALID_SCHEMES on):",
-    ] + ["    " + l for l in air_to_vac_source_lines()] + formula_comments + [
+        "Air -> vacuum wavelengths from specutils %s, function specutils.utils.wcs_utils.air_to_vac("
+        "Quantity(air_angstrom, u.AA), scheme=<scheme>, method=<method>, co2=<co2>)" % specutils.__version__,
+        "  with its defaults precision=1e-12 and maxiter=30, called one wavelength at a time"
+        " (plain float64); results printed with repr(). The three schemes, in our words:",
+        "  'iteration': fixed-point solution of lambda_vac / n(lambda_vac) = lambda_air, stopped when the"
+        " change is below precision, an ABSOLUTE step in the input unit",
+        "    (1e-12 Angstrom here, about 1e-16 relative): the exact inverse of vac_to_air to float64 rounding;",
+        "  'inversion': lambda_air * n(lambda_air), i.e. n evaluated at the air wavelength: an approximation"
+        " (its errors are measured below);",
+        "  'Piskunov': a closed-form fit to the inverse attributed to N. Piskunov, with its own coefficients"
+        " (method and co2 are ignored): n = 1 + 8.336624212083e-5",
+        "    + 2.408926869968e-2 / (130.1065924522 - s^2) + 1.599740894897e-4 / (38.92568793293 - s^2),"
+        " s = 1e4 / lambda_air[Angstrom]; coefficients as in specutils %s" % specutils.__version__,
+        "    (we know no journal publication of them; the column is checked below against the exact"
+        " inverse of Edlen1966 and Morton2000).",
+    ] + formula_comments + [
         "Columns: air_angstrom = input air wavelength [Angstrom];"
         " vac_<m>_iteration_angstrom = air_to_vac(scheme='iteration', method=<m>) [Angstrom];",
         "  vac_<m>_inversion_angstrom = air_to_vac(scheme='inversion', method=<m>) [Angstrom]"
@@ -402,11 +401,11 @@ def make_air_vacuum():
         "  inversion, max rel. error: " + "; ".join("%s %s" % (t, mpmath.nstr(dev_inv[t], 2)) for t, _, _ in variants),
         "  Piskunov vs exact inverse of Edlen1966: %s ; vs Morton2000: %s"
         % (mpmath.nstr(dev_pisk["Edlen1966"], 2), mpmath.nstr(dev_pisk["Morton2000"], 2)),
-        "Tolerances (relative): *_iteration_* columns 1e-14 (exact inverse; compare with a Java inverse iterated to 1e-12"
-        " or better); *_inversion_* columns are only an",
-        "  approximation of the inverse (error grows toward the UV; largest at 2000 Angstrom, see above)"
-        " -- compare an exact Java inverse to them with 1e-7 relative;"
-        " vac_Piskunov_angstrom: 1e-7 relative against an exact Morton2000/Edlen1966 inverse.",
+        "tolerance iteration: 1e-14 relative (*_iteration_* columns: exact inverse; compare with a Java inverse"
+        " iterated to 1e-12 or better)",
+        "tolerance inversion: 1e-7 relative (*_inversion_* columns are only an approximation of the inverse,"
+        " worst at 2000 Angstrom, see above; compare an exact Java inverse with them)",
+        "tolerance piskunov: 1e-7 relative (vac_Piskunov_angstrom against an exact Java inverse of Morton2000)",
     ]
     write_csv("vacuum-air-specutils.csv", comments, header, rows)
 

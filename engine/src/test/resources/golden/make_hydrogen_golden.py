@@ -145,18 +145,18 @@ def dirac_table():
         "",
         "Dirac bound-state energies of a one-electron ion: point nucleus, infinite nuclear mass,",
         "no QED (no Lamb shift), no hyperfine structure.",
-        "function: sympy.physics.hydrogen.E_nl_dirac(n, l, spin_up, Z, c).evalf(40)",
-        "  sympy source: kappa_s = -l-1 (spin_up=True, j=l+1/2) or -l (spin_up=False, j=l-1/2),",
-        "  E = c^2 / sqrt(1 + (Z/c)^2 / (n + kappa_s + sqrt(kappa_s^2 - (Z/c)^2))^2) - c^2",
-        "  i.e. the Sommerfeld-Dirac formula with the electron rest energy m c^2 = c^2 Hartree SUBTRACTED,",
-        "  in Hartree atomic units (m_e, not reduced mass). 'spin_up' is NOT a spin projection:",
-        "  True means j = l + 1/2, False means j = l - 1/2 (rejected for l = 0).",
-        "  Energy depends on n and j only (2s1/2 == 2p1/2 etc.).",
+        "function: sympy.physics.hydrogen.E_nl_dirac(n, l, spin_up, Z, c).evalf(40), which evaluates the",
+        "  Dirac energy of a point nucleus (C. G. Darwin, Proc. R. Soc. Lond. A 118, 654 (1928); W. Gordon,",
+        "  Z. Phys. 48, 11 (1928); Sommerfeld's fine-structure formula), in our notation with k = j + 1/2:",
+        "  E = m c^2 [1 + (Z alpha / (n - k + sqrt(k^2 - (Z alpha)^2)))^2]^(-1/2) - m c^2,",
+        "  i.e. with the electron rest energy SUBTRACTED, in Hartree atomic units (m_e, not reduced mass;",
+        "  c = 1/alpha). The argument spin_up selects j: True gives j = l + 1/2, False j = l - 1/2",
+        "  (refused for l = 0). The energy depends on n and j only (2s1/2 == 2p1/2 etc.).",
         "  NOTE: sympy's default c = 137.035999037 (not CODATA 2018) - it is overridden here.",
         "c = 1/alpha with alpha = scipy.constants.fine_structure = %s (CODATA 2018)," % ALPHA_STR,
         "  passed to sympy as an EXACT sympy.Rational built from the 50-significant-digit decimal string",
         "  of 1/alpha computed in mpmath at mp.dps = 50:  c = %s" % c_str,
-        "cross-check: independent mpmath evaluation (80 digits) of the same formula agrees to < 1e-35 relative",
+        "cross-check: our own mpmath evaluation (80 digits) of the formula above agrees to < 1e-35 relative",
         "columns:",
         "  Z              nuclear charge (integer)",
         "  n              principal quantum number (integer, 1..6)",
@@ -164,7 +164,7 @@ def dirac_table():
         "  two_j          2j, j = l +- 1/2 (integer, j > 0)",
         "  energy_hartree Dirac energy minus rest energy, Hartree (E_h), 20 significant digits",
         "  bohr_hartree   nonrelativistic Bohr energy -Z^2/(2 n^2), Hartree (exact rational, printed to 20 digits)",
-        "tolerance for the Java test: 1e-13 relative on energy_hartree (and on bohr_hartree)",
+        "tolerance: 1e-13 relative (energy_hartree and bohr_hartree, every row)",
     ]
     write_csv("dirac-energies.csv", comments,
               ["Z", "n", "l", "two_j", "energy_hartree", "bohr_hartree"], [r[:6] for r in rows])
@@ -388,8 +388,8 @@ def radial_table():
         "  n_prime,l_prime lower-n state, l_prime = l +- 1",
         "  integral_bohr  signed I in units of a_0 (sympy R_nl sign convention), 20 significant digits",
         "  source         sympy-exact or gordon-mpmath",
-        "tolerance for the Java test: 1e-12 relative. All 20 printed digits are trusted (verified to >= 25).",
-        "  For gordon-mpmath rows a double-precision recursion may only reach ~1e-10 relative; test those at 1e-10.",
+        "tolerance: 1e-12 relative (every row, sympy-exact and gordon-mpmath alike; all 20 printed digits are",
+        "  trusted, verified to >= 25)",
     ]
     write_csv("radial-dipole-integrals.csv", comments,
               ["n", "l", "n_prime", "l_prime", "integral_bohr", "source"], rows)
@@ -455,7 +455,7 @@ def rates_tables(values):
         "  n_lower,l_lower  lower state n' l'",
         "  f_absorption     absorption oscillator strength f(n'l' -> nl), dimensionless, 20 significant digits",
         "  einstein_a_per_s spontaneous emission rate A(nl -> n'l'), s^-1, 20 significant digits",
-        "tolerance for the Java test: 1e-12 relative",
+        "tolerance: 1e-12 relative (every row)",
     ], ["n_upper", "l_upper", "n_lower", "l_lower", "f_absorption", "einstein_a_per_s"], rows)
     write_csv("hydrogen-lifetimes.csv", comments_common + [
         "lifetime tau(n l) = 1 / sum_{n' < n, l' = l +- 1} A(n l -> n' l'), E1 only.",
@@ -464,7 +464,7 @@ def rates_tables(values):
         "columns:",
         "  n,l         state",
         "  lifetime_s  radiative lifetime, seconds, 20 significant digits",
-        "tolerance for the Java test: 1e-12 relative",
+        "tolerance: 1e-12 relative (every row)",
     ], ["n", "l", "lifetime_s"], life_rows)
 
 

@@ -17,9 +17,14 @@ import java.util.Locale;
  * {@code CiddorPublishedValuesTest} checks it against the paper's Tables 1 and 3 (to 0.05e-8)
  * and the NIST refractive-index calculator (to 1e-9).
  *
- * <p>Validity (from memory, as stated for the equation by NIST's refractive-index documentation):
- * vacuum wavelength 300 nm to 1690 nm, temperature -40 &deg;C to 100 &deg;C, pressure 10 kPa to
- * 140 kPa, relative humidity 0 % to 100 %, CO2 0 to 2000 ppm. Conditions outside these ranges are
+ * <p>Validity as stated for the equation in J. A. Stone and J. H. Zimmerman, NIST Engineering
+ * Metrology Toolbox, "Index of refraction of air" (online documentation of NIST's calculator;
+ * ranges from memory, checked only in part: the wavelength range is that of the Peck &amp; Reeder
+ * (1972) dispersion data the paper builds on, 0.23 um to 1.69 um, and the published values in
+ * {@code CiddorPublishedValuesTest} span 0 &deg;C to 60 &deg;C, 10 kPa to 140 kPa and 0 % to 100 %
+ * relative humidity): vacuum wavelength 300 nm
+ * to 1690 nm, temperature -40 &deg;C to 100 &deg;C, pressure 10 kPa to 140 kPa, relative
+ * humidity 0 % to 100 %, CO2 0 to 2000 ppm. Conditions outside these ranges are
  * refused by the constructor; wavelengths outside are refused by {@link Medium.Air}. Below
  * 0 &deg;C the saturation vapour pressure over water is used, as in the paper.
  *

@@ -18,7 +18,7 @@ import org.ritzwerk.medium.MediumException;
  * <p>Grammar: {@code number [uncertainty] unit [medium]}, blanks between parts optional where
  * unambiguous.
  * <ul>
- *   <li>number: a decimal such as {@code 656.28}, {@code .5} or {@code 2.18e-18}; finite and not
+ *   <li>number: a decimal such as {@code 656.28}, {@code .5} or {@code 3.6e-19}; finite and not
  *       negative (and not zero for wavelengths and frequencies).</li>
  *   <li>uncertainty: concise, digits in parentheses that count in the last digits of the number
  *       ({@code 656.28(2)} is 656.28 with 0.02; {@code 6.62607015(81)e-34}), or after

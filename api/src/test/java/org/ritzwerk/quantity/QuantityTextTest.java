@@ -23,7 +23,7 @@ class QuantityTextTest {
         assertEquals(Wavenumber.ofPerCentimetre(15233.1), text.parse("15233.1 cm-1"));
         assertEquals(Frequency.of(457.2, Unit.TERAHERTZ), text.parse("457.2 THz"));
         assertEquals(Energy.ofElectronVolts(1.8886), text.parse("1.8886 eV"));
-        assertEquals(Energy.ofJoules(2.18e-18), text.parse("2.18e-18 J"));
+        assertEquals(Energy.ofJoules(3.6e-19), text.parse("3.6e-19 J"));
         assertEquals(Temperature.ofKelvin(300), text.parse("300 K"));
         assertEquals(Wavelength.of(6562.8, Unit.ANGSTROM, Medium.air()), text.parse("6562.8 Angstrom air"));
         assertEquals(Wavelength.of(6562.8, Unit.ANGSTROM, Medium.air()), text.parse("6562.8 \u00c5 air"));

@@ -12,7 +12,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import java.util.LinkedHashMap;
 import java.util.TreeMap;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import java.util.stream.Collectors;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Nucleus;
@@ -33,18 +36,21 @@ import org.ritzwerk.data.Provenance;
  * Marinova 2013 or CODATA 2018, spins from the Blue Obelisk data repository; the file header of
  * {@code nuclear/isotopes.csv} gives every citation and how the values were checked. It is read
  * once, on first use. Immutable and thread-safe.
+ *
+ * <p>Both files it reads ({@code nuclear/isotopes.csv} and {@code nuclear/most-abundant.csv})
+ * start with the standard header keys of the project's data files ({@code # id:},
+ * {@code # title:}, {@code # source:}, {@code # provenance:}, {@code # version:}); they are
+ * required, each once, and {@link #info()} and {@link #defaultsInfo()} expose them. Other
+ * {@code #} lines are comments.
  */
 public final class NuclearData {
 
     /** The id of the built-in isotope table. */
     public static final String DATA_SET_ID = "nuclear-isotopes";
-    /** What the built-in isotope table is. */
-    public static final DataSetInfo INFO = new DataSetInfo(DATA_SET_ID, DataKind.NUCLEAR,
-            "Nuclear masses, spins, moments and charge radii of 88 isotopes", "2021",
-            Provenance.published("M. Wang et al., Chin. Phys. C 45, 030003 (2021) (AME2020 masses); N. J. Stone, "
-                    + "INDC(NDS)-0794 (2019) and CODATA 2018 (moments); I. Angeli and K. P. Marinova, At. Data "
-                    + "Nucl. Data Tables 99, 69 (2013) and CODATA 2018 (radii); Blue Obelisk data (spins)"),
-            java.util.List.of());
+    /** The id of the built-in table of default isotopes (the most abundant one of each element). */
+    public static final String DEFAULTS_ID = "nuclear-most-abundant";
+    /** The standard header keys every built-in nuclear file carries, in order. */
+    static final List<String> HEADER_KEYS = List.of("id", "title", "source", "provenance", "version");
 
     private static final String ISOTOPES = "nuclear/isotopes.csv";
     private static final String DEFAULTS = "nuclear/most-abundant.csv";
@@ -52,10 +58,25 @@ public final class NuclearData {
 
     private final Map<Integer, Map<Integer, Isotope>> byElement;
     private final Map<Integer, Integer> defaults;
+    private final DataSetInfo info;
+    private final DataSetInfo defaultsInfo;
 
-    private NuclearData(Map<Integer, Map<Integer, Isotope>> byElement, Map<Integer, Integer> defaults) {
+    private NuclearData(Map<Integer, Map<Integer, Isotope>> byElement, Map<Integer, Integer> defaults,
+            DataSetInfo info, DataSetInfo defaultsInfo) {
         this.byElement = byElement;
         this.defaults = defaults;
+        this.info = info;
+        this.defaultsInfo = defaultsInfo;
+    }
+
+    /** @return what the isotope table is: id, title, version and provenance from its file header */
+    public DataSetInfo info() {
+        return info;
+    }
+
+    /** @return what the table of default isotopes is, from the header of {@code nuclear/most-abundant.csv} */
+    public DataSetInfo defaultsInfo() {
+        return defaultsInfo;
     }
 
     /** @return the built-in data set, read on first use (thread-safe) */
@@ -113,7 +134,7 @@ public final class NuclearData {
 
     /** @return the isotopes as a reference data set */
     public IsotopeTable table() {
-        return new IsotopeTable(INFO, isotopes());
+        return new IsotopeTable(info, isotopes());
     }
 
     /**
@@ -126,7 +147,11 @@ public final class NuclearData {
 
     private static NuclearData load() {
         Map<Integer, Map<Integer, Isotope>> byElement = new TreeMap<>();
-        for (Row row : rows(ISOTOPES)) {
+        List<Row> isotopeRows = new ArrayList<>();
+        DataSetInfo info = read(ISOTOPES, DATA_SET_ID, isotopeRows);
+        List<Row> defaultRows = new ArrayList<>();
+        DataSetInfo defaultsInfo = read(DEFAULTS, DEFAULTS_ID, defaultRows);
+        for (Row row : isotopeRows) {
             Isotope isotope = row.isotope();
             Map<Integer, Isotope> isotopes = byElement.computeIfAbsent(isotope.z(), z -> new TreeMap<>());
             if (isotopes.put(isotope.massNumber(), isotope) != null) {
@@ -134,7 +159,7 @@ public final class NuclearData {
             }
         }
         Map<Integer, Integer> defaults = new TreeMap<>();
-        for (Row row : rows(DEFAULTS)) {
+        for (Row row : defaultRows) {
             int z = row.integer(0, "z");
             int a = row.integer(1, "a");
             if (!byElement.getOrDefault(z, Map.of()).containsKey(a)) {
@@ -143,37 +168,91 @@ public final class NuclearData {
             defaults.put(z, a);
         }
         byElement.replaceAll((z, map) -> Collections.unmodifiableMap(map));
-        return new NuclearData(Collections.unmodifiableMap(byElement), Collections.unmodifiableMap(defaults));
+        return new NuclearData(Collections.unmodifiableMap(byElement), Collections.unmodifiableMap(defaults), info,
+                defaultsInfo);
     }
 
-    private static List<Row> rows(String resource) {
+    /**
+     * Reads a built-in nuclear file: its standard header keys into a {@link DataSetInfo} (validated),
+     * its data rows into {@code rows}.
+     */
+    private static DataSetInfo read(String resource, String expectedId, List<Row> rows) {
         InputStream in = NuclearData.class.getResourceAsStream(resource);
         if (in == null) {
             throw new IllegalStateException("built-in data file missing from the jar: " + resource);
         }
-        List<Row> rows = new ArrayList<>();
         try (BufferedReader reader = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
-            boolean header = true;
-            int number = 0;
-            for (String line = reader.readLine(); line != null; line = reader.readLine()) {
-                number++;
-                if (line.startsWith("#") || line.isBlank()) {
-                    continue;
-                }
-                if (header) {
-                    header = false;
-                    continue;
-                }
-                rows.add(new Row(resource, number, line, line.split(",", -1)));
-            }
+            return read(reader, resource, expectedId, rows);
         } catch (IOException e) {
             throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
         }
-        return rows;
+    }
+
+    /**
+     * The reading itself, open to tests: header keys are lines {@code # key: value} with one of
+     * {@link #HEADER_KEYS} as key, each required once and not blank; the id must be
+     * {@code expectedId} and the provenance a known kind.
+     *
+     * @throws ReferenceDataException ({@link ReferenceDataException#BAD_BUILT_IN}) naming the file and line
+     */
+    static DataSetInfo read(BufferedReader reader, String resource, String expectedId, List<Row> rows)
+            throws IOException {
+        Map<String, String> header = new LinkedHashMap<>();
+        boolean columns = true;
+        int number = 0;
+        for (String line = reader.readLine(); line != null; line = reader.readLine()) {
+            number++;
+            if (line.startsWith("#")) {
+                Matcher key = HEADER_KEY.matcher(line);
+                if (key.matches()) {
+                    if (!columns || !rows.isEmpty()) {
+                        throw new Row(resource, number, line, new String[0]).problem("header key after the data");
+                    }
+                    if (header.put(key.group(1), key.group(2).strip()) != null) {
+                        throw new Row(resource, number, line, new String[0])
+                                .problem("header key '" + key.group(1) + "' is given twice");
+                    }
+                }
+                continue;
+            }
+            if (line.isBlank()) {
+                continue;
+            }
+            if (columns) {
+                columns = false;
+                continue;
+            }
+            rows.add(new Row(resource, number, line, line.split(",", -1)));
+        }
+        return info(resource, expectedId, header);
+    }
+
+    private static final Pattern HEADER_KEY = Pattern.compile(
+            "#\\s*(" + String.join("|", HEADER_KEYS) + "):(.*)");
+
+    private static DataSetInfo info(String resource, String expectedId, Map<String, String> header) {
+        for (String key : HEADER_KEYS) {
+            if (header.getOrDefault(key, "").isBlank()) {
+                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN,
+                        resource + ":1: required header '# " + key + ": ...' is missing or empty");
+            }
+        }
+        if (!header.get("id").equals(expectedId)) {
+            throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN,
+                    resource + ":1: header id '" + header.get("id") + "', expected '" + expectedId + "'");
+        }
+        Provenance.Kind kind;
+        try {
+            kind = Provenance.Kind.fromId(header.get("provenance"));
+        } catch (IllegalArgumentException e) {
+            throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, resource + ":1: " + e.getMessage());
+        }
+        return new DataSetInfo(expectedId, DataKind.NUCLEAR, header.get("title"), header.get("version"),
+                new Provenance(kind, header.get("source")), List.of());
     }
 
     /** One line of a built-in file, with the context its errors report. */
-    private record Row(String source, int line, String raw, String[] fields) {
+    record Row(String source, int line, String raw, String[] fields) {
 
         Isotope isotope() {
             if (fields.length != 13) {

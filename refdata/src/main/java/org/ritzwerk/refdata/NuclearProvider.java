@@ -21,7 +21,7 @@ public final class NuclearProvider implements ReferenceDataProvider {
 
     @Override
     public List<DataSetInfo> dataSets() {
-        return List.of(NuclearData.INFO);
+        return List.of(NuclearData.builtIn().info());
     }
 
     @Override
