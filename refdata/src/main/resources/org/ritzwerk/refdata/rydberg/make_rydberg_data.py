@@ -197,7 +197,10 @@ CORE = {
 # Measured levels (n, l, 2j, energy in cm^-1 as the NIST ASD prints it; from memory).
 # Li 10s (42298.1, recalled to one decimal only) is left out: it is 1.5 cm-1 off both the Rydberg-
 # Ritz formula of Goy et al. 1986 and the regularity of the Li s series (checks 1 and 2), so the
-# formula gives 10s.
+# formula gives 10s.  Li 4f (36630.2) and 5f (39104.5) are left out for the same reason: they lie
+# above the hydrogenic 4f and 5f, where no f level can lie, 1.9 and 7.0 cm-1 above the Rydberg-Ritz
+# formula of Lorenzen & Niemax 1983 (check 1), and 4f is 2 cm-1 above the bound state of the model
+# potential too (check 4); with no measured f level the formula gives the Li f series from 4f on.
 # ---------------------------------------------------------------------------------------------
 RB_LEVELS = """
 5 0 1 0
@@ -444,15 +447,11 @@ LI_LEVELS = """
 4 1 1 36469.55
 4 2 3 36623.38
 4 2 5 36623.40
-4 3 7 36630.2
-4 3 5 36630.2
 5 0 1 38299.50
 5 1 3 39015.56
 5 1 1 39015.56
 5 2 3 39094.93
 5 2 5 39094.94
-5 3 7 39104.5
-5 3 5 39104.5
 6 0 1 39987.64
 6 1 1 40390.84
 6 1 3 40390.84
@@ -666,14 +665,20 @@ def check_model_potentials():
         r_m = rydberg_per_cm(MASS_U[atom_id])
         limit = LIMITS[atom_id][0]
         levels = parse_levels(levels_text)
-        n_low = min(n for n, ll, tj, e in levels if ll == l)
-        members = [(tj, float(e)) for n, ll, tj, e in levels if ll == l and n == n_low]
+        lows = [n for n, ll, tj, e in levels if ll == l]
+        if lows:
+            n_low = min(lows)
+            members = [(tj, float(e)) for n, ll, tj, e in levels if ll == l and n == n_low]
+        else:  # no measured level: the published Rydberg-Ritz formula's lowest level stands in
+            n_low = l + 1
+            members = [(tj, ritz(limit, r_m, co, n_low)) for ll, tj, co, paper in series if ll == l]
         e_mean = sum((tj + 1) * e for tj, e in members) / sum(tj + 1 for tj, e in members)
         measured = -(limit - e_mean) / (2 * r_m)
         n_star = 1 / math.sqrt(-2 * measured)
         model = numerov_lowest(int(zt), float(ac), [float(v) for v in (a1, a2, a3, a4, rc)], l, n_low - l - 1,
                                4 * n_star ** 2 + 40, measured)
-        results.append((line.split(), "%d%s" % (n_low, L_LETTERS[l]), model, measured, model / measured - 1))
+        state = "%d%s" % (n_low, L_LETTERS[l]) + ("" if lows else " (formula)")
+        results.append((line.split(), state, model, measured, model / measured - 1))
     return results
 
 
@@ -723,8 +728,10 @@ def main():
                     within = []
                 if good:
                     within.append((n, abs(fit - e)))
-            last = measured[-1][0] if measured else l + 1
-            valid_from[(l, two_j)] = first_good if first_good is not None else last + 1
+            if measured:
+                valid_from[(l, two_j)] = first_good if first_good is not None else measured[-1][0] + 1
+            else:
+                valid_from[(l, two_j)] = l + 1
             if within:
                 text = "check 1: %s agree%s within %.2f cm-1 (largest |formula - measured| %.4f cm-1)" % (
                     "the measured level n = %d" % within[0][0] if len(within) == 1 else
@@ -735,7 +742,9 @@ def main():
                 text = "check 1: no measured level within %.2f cm-1; the highest one (n = %d) is %+.4f cm-1 off" % (
                     TOLERANCE_PER_CM, n, ritz(limit, r_m, coefficients, n) - e)
             else:
-                text = "check 1: no measured level"
+                text = "check 1: no measured level (the recalled ones failed the checks and were left out); " \
+                       "check 4: the model potential's %d%s bound state is %+.1e (relative) from this formula's" % (
+                           l + 1, L_LETTERS[l], model_check[(symbol, l)])
             for other_id, other_coefficients, other_paper in second_values[(symbol, l, two_j)]:
                 if other_paper.split(" (")[0] != paper.split(" (")[0]:
                     d50 = defect(coefficients, 50) - defect(other_coefficients, 50)
@@ -865,8 +874,8 @@ def main():
         report.append("%-3s  %s  %-4s  %.6f  %.6f  %+.1e" % (fields[0], fields[3], state, model, measured, rel))
         if not abs(rel) <= 0.01:
             problems.append("%s l=%s check 4: %.1e" % (fields[0], fields[3], rel))
-        mp.append(",".join(fields + ["check 4: %s bound state %.6f hartree against the measured %.6f (%+.1e)" % (
-            state, model, measured, rel)]))
+        mp.append(",".join(fields + ["check 4: %s bound state %.6f hartree against the %s %.6f (%+.1e)" % (
+            state.split()[0], model, "formula's" if "formula" in state else "measured", measured, rel)]))
     with open("model-potentials.csv", "w") as f:
         f.write("\n".join(mp) + "\n")
     if problems:
