@@ -27,7 +27,7 @@ final class TestAtoms {
      * Rubidium-87-like: the Mack 2011 / Li 2003 / Han 2006 series (as in refdata's built-in set,
      * rounded valid-from), Rb-87 R_M from the AME2020 mass, the Mack limit, and the lowest
      * measured levels (NIST ASD in cm-1, from memory, as in refdata) so that the ground and D lines
-     * exist; core polarizabilities as in refdata (from memory).
+     * exist; core polarizabilities as in refdata (Berl et al. 2020).
      */
     static AlkaliAtom rubidium() {
         double rydberg = R_INF_PER_CM / (1 + 5.48579909065e-4 / (86.909180529 - 5.48579909065e-4));
@@ -49,7 +49,8 @@ final class TestAtoms {
         low.add(new MeasuredLevel(State.of(4, 2, 3), 19355.648, src));
         low.add(new MeasuredLevel(State.of(4, 3, 7), 26792.091, src));
         low.add(new MeasuredLevel(State.of(4, 3, 5), 26792.117, src));
-        return AlkaliAtom.of(set, low, new CorePolarizability(9.116, 38.4, "test (from memory, as in refdata)"));
+        return AlkaliAtom.of(set, low, new CorePolarizability(9.116, 38.4,
+                "S. Berl et al., Phys. Rev. A 102, 062818 (2020), read in its abstract"));
     }
 
     static QuantumDefects defects(String id, Species species, double limit, double rydberg,

@@ -23,14 +23,17 @@ Where the numbers come from, and how sure we are of them.
     levels (check 1) and, where two papers measured the same series, against each other.
   * Ionisation limits: the Cs limit of Deiglmayr et al. (2016) was read in the paper
     (arXiv:1601.08005, abstract); the others are from memory with their papers as citations,
-    checked by check 1 and against the NIST ASD ionisation energies (from memory).
+    checked by check 1 and against a second value: for K the limit of Peper et al. (2019), read in
+    its abstract; for Li and Na the NIST ASD ionisation energies (from memory); for Rb-85 the Rb-87
+    limit; for Cs, Shen et al. (2024), read in its abstract.
   * Measured levels: NIST Atomic Spectra Database (ASD) energy levels of the natural element,
     in cm^-1 as the ASD prints them, from memory (ASD version not re-checked).  Each row is
     checked: the ground level is the zero; the resonance levels (lowest p1/2, p3/2) against
     the D-line frequencies of the alkali D-line data sheets (D. A. Steck; T. G. Tiecke; M. E.
     Gehm), which refdata's PublishedRydbergTest asserts; every other level by check 2.
-  * Core polarizabilities: from memory, checked against the core polarizability alpha_c of
-    Marinescu et al. (1994) and, for Rb, against the measured g-series quantum defect (check 3).
+  * Core polarizabilities: Rb (Berl et al. 2020) and Na (1988) read in the papers' abstracts;
+    Li, K and Cs from memory.  All checked against the core polarizability alpha_c of Marinescu
+    et al. (1994) and, for Rb, against the measured g-series quantum defect (check 3).
   * Model potentials: Marinescu et al. (1994), Table I, from memory; checked by check 4.
 
 Check 1 (chooses valid-from-n).  For each series the Rydberg-Ritz energy
@@ -172,7 +175,10 @@ ASD_IE = "NIST ASD ionisation energy (from memory)"
 LIMITS = {
     "li-7": (43487.15, "from-memory", LN_1983, (43487.114, ASD_IE)),
     "na-23": (41449.44, "from-memory", LN_1983, (41449.451, ASD_IE)),
-    "k-39": (35009.8139375, "from-memory", "weighted average of the series limits in " + LN_1983, (35009.814, ASD_IE)),
+    "k-39": (35009.8139375, "from-memory", "weighted average of the series limits in " + LN_1983,
+             (35009.8139710, "M. Peper, F. Helmrich, J. Butscher, J. A. Agner, H. Schmutz, F. Merkt and J. Deiglmayr, "
+              "Phys. Rev. A 100, 012501 (2019), arXiv:1907.02776: 35009.8139710(22) cm-1 (read in the paper's "
+              "abstract)")),
     "rb-85": (33690.79890, "from-memory", LI_2003, None),
     "rb-87": ((RB87_LIMIT_GHZ_FROM_F1 - 5.0 / 8 * RB87_GROUND_SPLITTING_GHZ) / (C / 1e7), "from-memory",
               MACK_2011 + ": 1010029.1646(3) GHz from 5S1/2 F=1; minus 5/8 of the ground hyperfine splitting "
@@ -183,14 +189,20 @@ LIMITS = {
                "abstract; not applied)")),
 }
 
-# Core (ion) dipole (a0^3) and quadrupole (a0^5) polarizabilities, for l >= 4: from memory.
+# Core (ion) dipole (a0^3) and quadrupole (a0^5) polarizabilities, for l >= 4, with their source.
+BERL_2020 = ("S. Berl et al., \"Core polarizability of rubidium using spectroscopy of the ng to nh, ni Rydberg "
+             "transitions\", Phys. Rev. A 102, 062818 (2020), doi:10.1103/PhysRevA.102.062818, arXiv:2004.08226: "
+             "9.116(9) and 38.4(6), read in the paper's abstract")
 CORE = {
-    "li-7": (0.1884, 0.046),
-    "na-23": (0.9980, 0.351),
-    "k-39": (5.4880, 17.89),
-    "rb-85": (9.116, 38.4),
-    "rb-87": (9.116, 38.4),
-    "cs-133": (15.5440, 70.7),
+    "li-7": (0.1884, 0.046, "from memory (published Li+ values as recalled; the paper was not at hand)"),
+    "na-23": (0.9980, 0.351, "\"Resonance measurements of d-f-g-h intervals in Rydberg states of sodium and a "
+              "redetermination of the core polarizabilities\", Phys. Rev. A 38, 4985 (1988) (journal reference from "
+              "memory): 0.9980(33) and 0.351(81), read in the paper's abstract"),
+    "k-39": (5.4880, 17.89, "from memory, as recalled from M. Peper et al., Phys. Rev. A 100, 012501 (2019), "
+             "arXiv:1907.02776 (its abstract, read, reports core-polarizability estimates without the digits)"),
+    "rb-85": (9.116, 38.4, BERL_2020),
+    "rb-87": (9.116, 38.4, BERL_2020),
+    "cs-133": (15.5440, 70.7, "from memory (published Cs+ values as recalled; the paper was not at hand)"),
 }
 
 # ---------------------------------------------------------------------------------------------
@@ -754,7 +766,7 @@ def main():
             row_check[(l, two_j)] = text
         # limit check
         if limit_second is not None:
-            limit_check = "check 1 (the series meet the measured levels with this limit); %s: %s, %+.4f cm-1 from " \
+            limit_check = "check 1 (the series meet the measured levels with this limit); %s: %s, %+.6f cm-1 from " \
                           "this value" % (limit_second[1], fmt(limit_second[0]), limit_second[0] - limit) \
                 if limit_second[0] != 31406.46775148 else \
                 "check 1 (the series meet the measured levels with this limit); second value: %s, %+.8f cm-1 from " \
@@ -764,7 +776,7 @@ def main():
             limit_check = "check 1 (the series meet the measured levels with this limit); the other Rb isotope's " \
                           "limit here is %+.4f cm-1 from it" % (other - limit)
         # core check
-        alpha_d, alpha_q = CORE[atom_id]
+        alpha_d, alpha_q, core_source = CORE[atom_id]
         mp_alpha = {ln.split()[0]: float(ln.split()[2]) for ln in MODEL_POTENTIALS.strip().splitlines()}[symbol]
         ratio = alpha_d / mp_alpha - 1
         if abs(ratio) > 0.10:
@@ -796,8 +808,7 @@ def main():
                "# limit-check: %s" % limit_check,
                "# core-dipole-polarizability-au: %s" % fmt(alpha_d),
                "# core-quadrupole-polarizability-au: %s" % fmt(alpha_q),
-               "# core-source: from memory (published values of the %s+ core polarizabilities as recalled; the "
-               "paper was not re-read)" % symbol,
+               "# core-source: %s" % core_source,
                "# core-check: %s" % core_check,
                "# levels: levels-%s" % atom_id,
                "# note: the digits of every series were typed in from memory with its paper as citation and "
