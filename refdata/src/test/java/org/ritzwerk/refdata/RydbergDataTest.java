@@ -16,6 +16,7 @@ import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
+import org.ritzwerk.engine.rydberg.ModelPotential;
 import org.ritzwerk.engine.rydberg.RydbergException;
 import org.ritzwerk.engine.rydberg.State;
 
@@ -58,6 +59,24 @@ class RydbergDataTest {
         // Cs-133: R_Cs = 109736.8627339 cm-1 as given by Deiglmayr et al., Phys. Rev. A 93, 013424 (2016)
         // (from memory); the same formula with CODATA 2018 and AME2020 gives 109736.8627304: to 1e-9 relative
         assertEquals(109736.8627339, QuantumDefectFiles.rydbergPerCm(Species.parse("Cs-133 I")), 1e-4);
+    }
+
+    @Test
+    void theModelPotentialsReadFromTheirOwnFormat() {
+        // model-potentials.csv (format ritzwerk-model-potentials 1): Marinescu et al. 1994, Table I, one row
+        // per element and l = 0..3; Z from the element, alpha_c from its column, the source with its provenance
+        for (String element : new String[] {"Li", "Na", "K", "Rb", "Cs"}) {
+            ModelPotential potential = RydbergData.builtIn().modelPotential(Species.parse(element + " I"));
+            assertEquals(4, potential.sets().size(), element);
+            assertTrue(potential.source().startsWith("M. Marinescu, H. R. Sadeghpour and A. Dalgarno"), potential.source());
+            assertTrue(potential.source().endsWith("(from-memory)"), potential.source());
+        }
+        ModelPotential rb = RydbergData.builtIn().modelPotential(Species.parse("Rb-87 I"));
+        assertEquals(37, rb.z());
+        assertEquals(9.076, rb.alphaC(), 0.0);
+        assertEquals(new ModelPotential.Parameters(3.69628474, 1.64915255, -9.86069196, 0.19579987, 1.66242117),
+                rb.sets().get(0));
+        assertThrows(ReferenceDataException.class, () -> RydbergData.builtIn().modelPotential(Species.parse("Rb II")));
     }
 
     @Test
