@@ -31,18 +31,21 @@ import org.ritzwerk.engine.rydberg.CorePolarizability;
  * # provenance: published
  * # version: 2011
  * # limit-per-cm: 33690.804799
- * # limit-provenance: published
+ * # limit-provenance: from-memory
  * # limit-source: ...
+ * # limit-check: ...                              (optional: how the limit was checked)
  * # core-dipole-polarizability-au: 9.116          (optional, with the next two)
  * # core-quadrupole-polarizability-au: 38.4
  * # core-source: ...
+ * # core-check: ...                               (optional: how the polarizabilities were checked)
  * # levels: levels-rb-87                          (optional: the id of the measured low levels)
  * # note: ...                                     (optional)
- * l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,read-in
- * 0,1/2,3.1311807,0.1787,0,0,0,10,published,Mack et al. ...,...
+ * l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,checked
+ * 0,1/2,3.1311807,0.1787,0,0,0,10,from-memory,Mack et al. ...,check 1: ...
  * </pre>
  * One row per series (l, j = l +- 1/2); trailing zero coefficients are dropped; the last two
- * columns are free text and may contain commas. The mass-corrected Rydberg constant is not in
+ * columns are free text (the row's citation, and how its numbers were checked) and may contain
+ * commas. The mass-corrected Rydberg constant is not in
  * the file: it is {@code R_M = R_inf / (1 + m_e / (M - m_e))} from the species' atomic mass M in
  * the built-in nuclear data (common practice: the core is the singly charged ion). Every
  * problem in a file is reported at once with its line. Stateless and thread-safe.
@@ -53,13 +56,13 @@ public final class QuantumDefectFiles {
     public static final String FORMAT = "ritzwerk-quantum-defects";
     /** The columns, in order. */
     public static final List<String> COLUMNS =
-            List.of("l", "j", "d0", "d2", "d4", "d6", "d8", "valid-from-n", "provenance", "source", "read-in");
+            List.of("l", "j", "d0", "d2", "d4", "d6", "d8", "valid-from-n", "provenance", "source", "checked");
 
     private static final List<String> REQUIRED = List.of("id", "title", "species", "source", "provenance", "version",
             "limit-per-cm", "limit-provenance", "limit-source");
     private static final Set<String> KNOWN = Set.of("id", "title", "species", "source", "provenance", "version",
-            "limit-per-cm", "limit-provenance", "limit-source", "core-dipole-polarizability-au",
-            "core-quadrupole-polarizability-au", "core-source", "levels", "note");
+            "limit-per-cm", "limit-provenance", "limit-source", "limit-check", "core-dipole-polarizability-au",
+            "core-quadrupole-polarizability-au", "core-source", "core-check", "levels", "note");
 
     /**
      * What a file holds beyond the {@link QuantumDefects} record.

@@ -18,6 +18,7 @@ import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.MeasuredLevel;
 import org.ritzwerk.engine.rydberg.ModelPotential;
@@ -30,9 +31,12 @@ import org.ritzwerk.quantity.Unit;
  * measured levels below its validity ({@code levels-rb-87}, format {@link LevelListFiles}), both
  * under {@code rydberg/} with the script {@code make_rydberg_data.py} that wrote them and
  * {@code fit-residuals.txt}, the comparison that chose each series' valid-from-n; and the
- * Marinescu et al. (1994) model potentials ({@code model-potentials.csv}). The file
- * headers name the paper of every series, the public copy each number was read in, and which
- * values are from memory (the Rb-85 ionisation limit).
+ * Marinescu et al. (1994) model potentials ({@code model-potentials.csv}, format
+ * {@code ritzwerk-model-potentials}, see {@link #MODEL_POTENTIAL_COLUMNS}). The file headers and
+ * rows name the paper or database of every value, say which values were typed in from memory,
+ * and how each row was checked (quantum-defect column {@code checked}, level column
+ * {@code note}, model-potential column {@code checked}; the checks are listed in
+ * {@code fit-residuals.txt}).
  *
  * <p>Typical use: {@code AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));}
  *
@@ -100,53 +104,93 @@ public final class RydbergData {
         return new RydbergData(Collections.unmodifiableMap(entries), readPotentials());
     }
 
-    /** Reads {@code rydberg/model-potentials.csv}: element,l,alpha_c,z,a1,a2,a3,a4,rc with l = 0, 1, 2, ... in order. */
+    /** The model-potential file format name. */
+    static final String MODEL_POTENTIAL_FORMAT = "ritzwerk-model-potentials";
+    /** The model-potential file's columns, in order. */
+    static final List<String> MODEL_POTENTIAL_COLUMNS = List.of("element", "nuclear-charge", "core-polarizability-a0^3",
+            "l", "a1-per-a0", "a2-per-a0", "a3-per-a0", "a4-per-a0^2", "cutoff-radius-a0", "checked");
+    private static final List<String> MODEL_POTENTIAL_KEYS = List.of("id", "source", "provenance");
+
+    /**
+     * Reads {@code rydberg/model-potentials.csv}, Ritzwerk's model-potential format
+     * ({@code ritzwerk-model-potentials}, version 1): the format line, header keys (id, title, source,
+     * provenance, version, formula, note; the first three required), the column row
+     * {@link #MODEL_POTENTIAL_COLUMNS} and one row per element and l, with l = 0, 1, 2, ... in order
+     * (the last l of an element serves every higher l); the last column, how the row was checked, is
+     * free text.
+     */
     private static Map<Integer, ModelPotential> readPotentials() {
         String resource = "rydberg/model-potentials.csv";
         Map<Integer, List<ModelPotential.Parameters>> sets = new LinkedHashMap<>();
         Map<Integer, double[]> heads = new LinkedHashMap<>();
-        String source = null;
+        Map<String, String> header = new LinkedHashMap<>();
         try (BufferedReader reader = new BufferedReader(new InputStreamReader(open(resource), StandardCharsets.UTF_8))) {
             int number = 0;
-            boolean header = true;
+            boolean columns = false;
             for (String line = reader.readLine(); line != null; line = reader.readLine()) {
                 number++;
-                if (line.startsWith("# source:")) {
-                    source = line.substring("# source:".length()).strip();
+                if (number == 1 && !line.equals("# " + MODEL_POTENTIAL_FORMAT + " 1")) {
+                    throw bad(resource, number, "first line must be '# " + MODEL_POTENTIAL_FORMAT + " 1'", line);
                 }
-                if (line.startsWith("#") || line.isBlank()) {
+                if (line.isBlank() || number == 1) {
                     continue;
                 }
-                if (header) {
-                    header = false;
-                    continue;
-                }
-                String[] f = line.split(",");
-                try {
-                    int z = Elements.atomicNumber(f[0]).orElseThrow(() -> new IllegalArgumentException("unknown element " + f[0]));
-                    int l = Integer.parseInt(f[1]);
-                    List<ModelPotential.Parameters> list = sets.computeIfAbsent(z, k -> new ArrayList<>());
-                    if (l != list.size() || f.length != 9) {
-                        throw new IllegalArgumentException("expected l = " + list.size() + " and 9 fields");
+                if (line.startsWith("#")) {
+                    int colon = line.indexOf(':');
+                    if (colon > 0) {
+                        header.put(line.substring(1, colon).strip(), line.substring(colon + 1).strip());
                     }
-                    heads.put(z, new double[] {Double.parseDouble(f[2]), Double.parseDouble(f[3])});
+                    continue;
+                }
+                if (!columns) {
+                    if (!line.equals(String.join(",", MODEL_POTENTIAL_COLUMNS))) {
+                        throw bad(resource, number, "columns must be " + String.join(",", MODEL_POTENTIAL_COLUMNS), line);
+                    }
+                    columns = true;
+                    continue;
+                }
+                String[] f = line.split(",", MODEL_POTENTIAL_COLUMNS.size());
+                try {
+                    if (f.length != MODEL_POTENTIAL_COLUMNS.size()) {
+                        throw new IllegalArgumentException("expected " + MODEL_POTENTIAL_COLUMNS.size() + " fields");
+                    }
+                    int z = Elements.atomicNumber(f[0]).orElseThrow(() -> new IllegalArgumentException("unknown element " + f[0]));
+                    if (Integer.parseInt(f[1]) != z) {
+                        throw new IllegalArgumentException("nuclear charge " + f[1] + " is not that of " + f[0]);
+                    }
+                    int l = Integer.parseInt(f[3]);
+                    List<ModelPotential.Parameters> list = sets.computeIfAbsent(z, k -> new ArrayList<>());
+                    if (l != list.size()) {
+                        throw new IllegalArgumentException("expected l = " + list.size());
+                    }
+                    heads.put(z, new double[] {Double.parseDouble(f[2]), z});
                     list.add(new ModelPotential.Parameters(Double.parseDouble(f[4]), Double.parseDouble(f[5]),
                             Double.parseDouble(f[6]), Double.parseDouble(f[7]), Double.parseDouble(f[8])));
                 } catch (RuntimeException e) {
-                    throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, resource + ":" + number + ": "
-                            + e.getMessage() + "\n    " + line);
+                    throw bad(resource, number, e.getMessage(), line);
                 }
             }
         } catch (IOException e) {
             throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
         }
+        for (String key : MODEL_POTENTIAL_KEYS) {
+            if (header.getOrDefault(key, "").isEmpty()) {
+                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, resource + ": header key '" + key
+                        + "' is missing");
+            }
+        }
+        String source = header.get("source") + " (" + Provenance.Kind.fromId(header.get("provenance")).id() + ")";
         Map<Integer, ModelPotential> out = new LinkedHashMap<>();
         for (Map.Entry<Integer, List<ModelPotential.Parameters>> e : sets.entrySet()) {
             double[] head = heads.get(e.getKey());
-            out.put(e.getKey(), new ModelPotential((int) head[1], head[0], e.getValue(), source == null ? resource
-                    : source));
+            out.put(e.getKey(), new ModelPotential((int) head[1], head[0], e.getValue(), source));
         }
         return Collections.unmodifiableMap(out);
+    }
+
+    private static ReferenceDataException bad(String resource, int number, String reason, String line) {
+        return new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, resource + ":" + number + ": " + reason
+                + "\n    " + line);
     }
 
     private static InputStream open(String resource) {

@@ -13,9 +13,10 @@ import org.ritzwerk.medium.Medium;
 /**
  * The built-in alkali models against published values. Each check names its source; values
  * recalled rather than looked up are marked "from memory". Declared tolerances and why:
- * D lines from the measured levels (NIST ASD copies, 7 to 10 significant digits in eV, natural
- * element): 2e-7 relative for Na, K, Cs, 1e-6 for Rb (natural-Rb levels against isotope-specific
- * lines) and 2e-6 for Li (6 decimals in eV). Matrix elements and lifetimes of the resonance lines
+ * D lines from the measured levels (NIST ASD levels of the natural element in cm-1, from memory,
+ * 2 to 8 decimals): 2e-7 relative for Na, K, Cs, 1e-6 for Rb (natural-Rb levels against
+ * isotope-specific lines) and 2e-6 for Li (2 decimals). These checks are what the levels files
+ * call "D line". Matrix elements and lifetimes of the resonance lines
  * come from the Coulomb approximation, which has no core potential: the reduced elements come
  * out 1 to 6 % high and the lifetimes 3 to 11 % short, and the tolerances say so per atom.
  */
@@ -34,7 +35,8 @@ class PublishedRydbergTest {
     @Test
     void dLineWavelengthsInVacuum() {
         // D. A. Steck, Rubidium 87 / Rubidium 85 / Cesium / Sodium D Line Data; T. G. Tiecke, Properties of
-        // Potassium; M. E. Gehm, Properties of 6Li and 7Li data sheets (all from memory), vacuum wavelengths.
+        // Potassium; Li-7: C. J. Sansonetti et al., Phys. Rev. Lett. 107, 023001 (2011) (all from memory),
+        // vacuum wavelengths.
         checkD("Rb-87 I", 5, 794.978851156, 780.241209686, 1e-6);
         checkD("Rb-85 I", 5, 794.979014933, 780.241368271, 1e-6);
         checkD("Cs-133 I", 6, 894.59295986, 852.34727582, 2e-7);
@@ -65,10 +67,11 @@ class PublishedRydbergTest {
 
     @Test
     void microwaveTransitionBetweenRydbergStates() {
-        // Rb-85 67S1/2 -> 66P3/2 resonant with a microwave cavity at 13.053 GHz (L. Marcassa's talk
-        // abstract on Kondo et al., arXiv:2407.16819 (2024), read in fherreralab/mqt-workshop-2024
-        // _talks/luismarcassa.md). A cavity frequency quoted to 1 MHz in an abstract, not a line-centre
-        // measurement, so only a loose check: the Li et al. 2003 defects give 13.0492 GHz, within 5 MHz.
+        // Rb-85 67S1/2 -> 66P3/2 resonant with a microwave cavity at 13.053 GHz (J. D. M. Kondo et al.,
+        // "Multiphoton dressed Rydberg excitations in a microwave cavity with ultracold Rb atoms",
+        // arXiv:2407.16819 (2024), read in its abstract). A cavity frequency quoted to 1 MHz, not a
+        // line-centre measurement, so only a loose check: the Li et al. 2003 defects give 13.0492 GHz,
+        // within 5 MHz.
         AlkaliAtom rb = atom("Rb-85 I");
         assertEquals(13.053e9, rb.frequencyHz(State.of(66, 1, 3), State.of(67, 0, 1)), 5e6);
     }
@@ -80,7 +83,8 @@ class PublishedRydbergTest {
         // the model measures from.
         double fromF1 = atom("Rb-87 I").ionisationLimitPerCm() + 5.0 / 8 * 6.834682610904e9 / (PhysicalConstants.C * 100);
         assertEquals(33690.94644, fromF1, 1e-5);
-        // Deiglmayr et al., Phys. Rev. A 93, 013424 (2016): 31 406.467 732 5(14) cm-1
+        // Deiglmayr et al., Phys. Rev. A 93, 013424 (2016): 31 406.467 732 5(14) cm-1 (read in the paper,
+        // arXiv:1601.08005)
         assertEquals(31406.4677325, atom("Cs-133 I").ionisationLimitPerCm(), 1e-7);
         // NIST ASD ionisation energies (from memory): Na 41 449.451, K 35 009.814, Li 43 487.114 cm-1;
         // the sets carry the limits their quantum defects were fitted with, within 0.04 cm-1 of these.
@@ -121,6 +125,7 @@ class PublishedRydbergTest {
             assertEquals(ca, model.radialDipoleBohr(State.of(50, 0, 1), State.of(50, 1, 3)), 1e-4 * Math.abs(ca),
                     species);
         }
+        // 4.546 e a0: this model's own earlier output, pinned as a regression value (not a published number)
         AlkaliAtom rb = atom("Rb-87 I").withModelPotential(DATA.modelPotential(Species.parse("Rb I")));
         assertEquals(4.546, Math.abs(rb.reducedDipole(State.of(5, 0, 1), State.of(5, 1, 3))) / Math.sqrt(2), 0.005);
     }
@@ -139,9 +144,10 @@ class PublishedRydbergTest {
     void blackbodyRatesFollowBeterov2009() {
         // I. I. Beterov et al., Phys. Rev. A 79, 052504 (2009), fit of the black-body-induced
         // depopulation rate of Rb at temperature T: A / n*^D * 2.14e10 / (exp(315780 B / (n*^C T)) - 1) s^-1,
-        // parameters (A, B, C, D) read in CSChisholm/Rydberg Matlab/Rb87blackbody.m at commit 4e4d07bd:
+        // parameters (A, B, C, D) of its table for Rb (from memory, the paper was not re-read):
         // nS (0.134, 0.251, 2.567, 4.426), nP3/2 (0.046, 0.109, 2.085, 3.901), nD5/2 (0.032, 0.082, 1.898, 3.703).
-        // Here at 300 K, n = 30 and 60: within 5 % (bound states only in both).
+        // Here at 300 K, n = 30 and 60: within 5 % (bound states only in both); our rates are an independent
+        // calculation, so agreement at six points checks the recalled parameters as well.
         double[][] fit = {{0.134, 0.251, 2.567, 4.426}, {0.046, 0.109, 2.085, 3.901}, {0.032, 0.082, 1.898, 3.703}};
         AlkaliAtom rb = atom("Rb-87 I");
         for (int n : new int[] {30, 60}) {

@@ -16,6 +16,7 @@ import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
+import org.ritzwerk.engine.rydberg.ModelPotential;
 import org.ritzwerk.engine.rydberg.RydbergException;
 import org.ritzwerk.engine.rydberg.State;
 
@@ -35,7 +36,8 @@ class RydbergDataTest {
                 int ll = l;
                 assertEquals(l == 0 ? 1 : 2, set.series().stream().filter(s -> s.l() == ll).count(), atom + " l=" + l);
             }
-            assertEquals(Provenance.Kind.PUBLISHED, set.info().provenance().kind());
+            // the digits were typed in from memory with their papers as citations, each row checked (column checked)
+            assertEquals(Provenance.Kind.FROM_MEMORY, set.info().provenance().kind());
             assertFalse(set.info().provenance().detail().isBlank());
             assertEquals(0.0, levels.energy(0), 0.0, atom + ": the first level is the ground state");
             assertTrue(levels.size() >= 7, atom);
@@ -49,13 +51,32 @@ class RydbergDataTest {
 
     @Test
     void rydbergConstantComesFromTheAtomicMass() {
-        // R_M = R_inf / (1 + m_e / (M - m_e)) with the AME2020 mass of Rb-87: 109736.62301604665 cm-1 in
-        // pairinteraction's quantum_defects.sql (commit 4b3609aa), computed there the same way from other
-        // editions of the constants and masses: to 2e-10 relative.
-        assertEquals(109736.62301604665, RydbergData.builtIn().quantumDefects(Species.parse("Rb-87 I")).defects()
+        // R_M = R_inf / (1 + m_e / (M - m_e)) with CODATA 2018 R_inf = 109737.31568160 cm-1 and
+        // m_e = 5.48579909065e-4 u and the AME2020 mass of Rb-87, 86.909180529 u: 109736.6230081 cm-1,
+        // worked out for this test in 30-digit decimal arithmetic (Python's decimal module); to 2e-10 relative.
+        assertEquals(109736.6230081, RydbergData.builtIn().quantumDefects(Species.parse("Rb-87 I")).defects()
                 .rydbergPerCm(), 2e-5);
-        // Cs-133: 109736.8627339 cm-1 (Deiglmayr et al. 2016 as quoted in pairinteraction): to 1e-9 relative
+        // Cs-133: R_Cs = 109736.8627339 cm-1 as given by Deiglmayr et al., Phys. Rev. A 93, 013424 (2016)
+        // (from memory); the same formula with CODATA 2018 and AME2020 gives 109736.8627304: to 1e-9 relative
         assertEquals(109736.8627339, QuantumDefectFiles.rydbergPerCm(Species.parse("Cs-133 I")), 1e-4);
+    }
+
+    @Test
+    void theModelPotentialsReadFromTheirOwnFormat() {
+        // model-potentials.csv (format ritzwerk-model-potentials 1): Marinescu et al. 1994, Table I, one row
+        // per element and l = 0..3; Z from the element, alpha_c from its column, the source with its provenance
+        for (String element : new String[] {"Li", "Na", "K", "Rb", "Cs"}) {
+            ModelPotential potential = RydbergData.builtIn().modelPotential(Species.parse(element + " I"));
+            assertEquals(4, potential.sets().size(), element);
+            assertTrue(potential.source().startsWith("M. Marinescu, H. R. Sadeghpour and A. Dalgarno"), potential.source());
+            assertTrue(potential.source().endsWith("(from-memory)"), potential.source());
+        }
+        ModelPotential rb = RydbergData.builtIn().modelPotential(Species.parse("Rb-87 I"));
+        assertEquals(37, rb.z());
+        assertEquals(9.076, rb.alphaC(), 0.0);
+        assertEquals(new ModelPotential.Parameters(3.69628474, 1.64915255, -9.86069196, 0.19579987, 1.66242117),
+                rb.sets().get(0));
+        assertThrows(ReferenceDataException.class, () -> RydbergData.builtIn().modelPotential(Species.parse("Rb II")));
     }
 
     @Test

@@ -155,8 +155,9 @@ public final class AlkaliAtom {
      * @param potential a core model potential for the wavefunctions (energies stay those of the
      *                  levels), or null for the Coulomb approximation
      * @return the same atom with radial functions integrated in that potential; the integration
-     *         still stops at the core radius {@code alpha_d^(1/3)} (as ARC does, N. Sibalic et al.,
-     *         Comput. Phys. Commun. 220, 319 (2017)), so the potential shapes the functions between
+     *         still stops at the core radius {@code alpha_d^(1/3)} (the inner cut-off of the Coulomb
+     *         approximation, M. L. Zimmerman et al., Phys. Rev. A 20, 2251 (1979); from memory), so the
+     *         potential shapes the functions between
      *         the core and the outer region, where it tends to -1/r
      */
     public AlkaliAtom withModelPotential(ModelPotential potential) {

@@ -109,8 +109,9 @@ class RydbergPropertiesTest {
         // delta ~ 3 alpha_d / (4 l^5) at large n: below 1e-6 from l = 29 on
         assertTrue(AlkaliAtom.polarizationDefect(100, 29, core) < 1e-6);
         // Rb g series: 3 alpha_d / (4 l^5) estimate ~ 0.0047 at large n; the model (alpha_q included)
-        // lands near the measured 0.0040 (Afrousheh et al. 2006 and Moore et al. 2020 as quoted in
-        // ARC and pairinteraction; within 30 %).
+        // lands near the measured 0.0040 (K. Afrousheh et al., Phys. Rev. A 74, 062712 (2006): delta_g(30) =
+        // 0.00405(6); K. Moore et al., arXiv:2004.11407 (2020): delta_0 = 0.0039990(21); both read in the
+        // papers' abstracts; within 30 %).
         assertEquals(0.0040, AlkaliAtom.polarizationDefect(50, 4, core), 0.3 * 0.0040);
         assertEquals(LevelOrigin.CORE_POLARIZATION, rubidium.level(30, 4, 9).origin());
         assertEquals(LevelOrigin.HYDROGENIC, hydrogen.level(30, 4, 9).origin());
@@ -231,7 +232,7 @@ class RydbergPropertiesTest {
     void modelPotentialTendsToTheNuclearAndTheIonicCharge() {
         // Marinescu et al. (1994) eq. 6: Z_l(r) -> Z at the nucleus and -> 1 far out (Rb l = 0 parameters)
         ModelPotential rb = new ModelPotential(37, 9.076, List.of(new ModelPotential.Parameters(3.69628474,
-                1.64915255, -9.86069196, 0.19579987, 1.66242117)), "Marinescu et al. 1994 via pairinteraction");
+                1.64915255, -9.86069196, 0.19579987, 1.66242117)), "Marinescu et al. 1994, Table I (from memory)");
         assertEquals(-37 / 1e-4, rb.potential(0, 1e-4), 1e-2 * 37 / 1e-4);
         assertEquals(-1 / 200.0 - 9.076 / (2 * Math.pow(200, 4)), rb.potential(0, 200), 1e-12);
         assertEquals(rb.potential(0, 3), rb.potential(7, 3), 0.0);

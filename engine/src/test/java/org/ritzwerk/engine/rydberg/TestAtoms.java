@@ -25,8 +25,9 @@ final class TestAtoms {
 
     /**
      * Rubidium-87-like: the Mack 2011 / Li 2003 / Han 2006 series (as in refdata's built-in set,
-     * rounded valid-from), Rb-87 R_M from the AME2020 mass, the Mack limit, and the three lowest
-     * measured levels (NIST ASD, as in refdata) so that the ground and D lines exist.
+     * rounded valid-from), Rb-87 R_M from the AME2020 mass, the Mack limit, and the lowest
+     * measured levels (NIST ASD in cm-1, from memory, as in refdata) so that the ground and D lines
+     * exist; core polarizabilities as in refdata (Berl et al. 2020).
      */
     static AlkaliAtom rubidium() {
         double rydberg = R_INF_PER_CM / (1 + 5.48579909065e-4 / (86.909180529 - 5.48579909065e-4));
@@ -40,16 +41,16 @@ final class TestAtoms {
         series.add(new QuantumDefects.Series(3, 7, List.of(0.0165437, -0.086), 7));
         QuantumDefects set = defects("test-rb", new Species(37, 87, 0), 33690.804799, rydberg, series);
         List<MeasuredLevel> low = new ArrayList<>();
-        String src = "NIST ASD via ARC copy";
-        double perEv = 8065.543937349212;
+        String src = "NIST ASD Rb I levels, from memory, as in refdata's levels-rb-87";
         low.add(new MeasuredLevel(State.of(5, 0, 1), 0, src));
-        low.add(new MeasuredLevel(State.of(5, 1, 1), 1.5595910 * perEv, src));
-        low.add(new MeasuredLevel(State.of(5, 1, 3), 1.5890490 * perEv, src));
-        low.add(new MeasuredLevel(State.of(4, 2, 5), 2.3997392 * perEv, src));
-        low.add(new MeasuredLevel(State.of(4, 2, 3), 2.3997945 * perEv, src));
-        low.add(new MeasuredLevel(State.of(4, 3, 7), 3.3217959 * perEv, src));
-        low.add(new MeasuredLevel(State.of(4, 3, 5), 3.3217991 * perEv, src));
-        return AlkaliAtom.of(set, low, new CorePolarizability(9.116, 38.4, "test"));
+        low.add(new MeasuredLevel(State.of(5, 1, 1), 12578.950, src));
+        low.add(new MeasuredLevel(State.of(5, 1, 3), 12816.545, src));
+        low.add(new MeasuredLevel(State.of(4, 2, 5), 19355.202, src));
+        low.add(new MeasuredLevel(State.of(4, 2, 3), 19355.648, src));
+        low.add(new MeasuredLevel(State.of(4, 3, 7), 26792.091, src));
+        low.add(new MeasuredLevel(State.of(4, 3, 5), 26792.117, src));
+        return AlkaliAtom.of(set, low, new CorePolarizability(9.116, 38.4,
+                "S. Berl et al., Phys. Rev. A 102, 062818 (2020), read in its abstract"));
     }
 
     static QuantumDefects defects(String id, Species species, double limit, double rydberg,

@@ -7,484 +7,522 @@ Needs only the Python 3 standard library.  Deterministic: rewrites the same byte
 Outputs (beside this script):
   quantum-defects-<atom>.csv   modified Rydberg-Ritz parameters per l, j (l = 0..3), the
                                ionisation limit, core polarizabilities, the lowest n each series
-                               is used for (valid-from-n), and the source of every number
+                               is used for (valid-from-n), the source of every number and how
+                               each was checked (column "checked", header keys limit-check and
+                               core-check)
   levels-<atom>.csv            measured energies of the levels below each series' valid-from-n
-                               (project format ritzwerk-levels 1)
-  fit-residuals.txt            the comparison that chose valid-from-n
-  model-potentials.csv         Marinescu, Sadeghpour & Dalgarno (1994) core model potentials
+                               (project format ritzwerk-levels 1), each row saying how it was checked
+  model-potentials.csv         the core model potentials of Marinescu, Sadeghpour and Dalgarno
+                               (1994) in Ritzwerk's own layout (format ritzwerk-model-potentials 1)
+  fit-residuals.txt            every check below, with its numbers
 
-How valid-from-n is chosen.  For each series the Rydberg-Ritz energy
+Where the numbers come from, and how sure we are of them.
+  * Quantum defects: the papers named per series.  The digits are typed in from memory (the
+    papers themselves were not at hand when this script was written), so every row is marked
+    provenance from-memory with its paper as the citation, and checked against the measured
+    levels (check 1) and, where two papers measured the same series, against each other.
+  * Ionisation limits: the Cs limit of Deiglmayr et al. (2016) was read in the paper
+    (arXiv:1601.08005, abstract); the others are from memory with their papers as citations,
+    checked by check 1 and against a second value: for K the limit of Peper et al. (2019), read in
+    its abstract; for Li and Na the NIST ASD ionisation energies (from memory); for Rb-85 the Rb-87
+    limit; for Cs, Shen et al. (2024), read in its abstract.
+  * Measured levels: NIST Atomic Spectra Database (ASD) energy levels of the natural element,
+    in cm^-1 as the ASD prints them, from memory (ASD version not re-checked).  Each row is
+    checked: the ground level is the zero; the resonance levels (lowest p1/2, p3/2) against
+    the D-line frequencies of the alkali D-line data sheets (D. A. Steck; T. G. Tiecke; M. E.
+    Gehm), which refdata's PublishedRydbergTest asserts; every other level by check 2.
+  * Core polarizabilities: Rb (Berl et al. 2020) and Na (1988) read in the papers' abstracts;
+    Li, K and Cs from memory.  All checked against the core polarizability alpha_c of Marinescu
+    et al. (1994) and, for Rb, against the measured g-series quantum defect (check 3).
+  * Model potentials: Marinescu et al. (1994), Table I, from memory; checked by check 4.
+
+Check 1 (chooses valid-from-n).  For each series the Rydberg-Ritz energy
     E(n) = limit - R_M / (n - delta(n))^2,  delta = d0 + d2/(n-d0)^2 + d4/(n-d0)^4 + ...
-is compared with every measured level transcribed below.  valid-from-n is the lowest n from
-which on every tabulated level agrees within TOLERANCE_PER_CM plus the rounding of the
-tabulated value (half a unit in its last printed digit); all levels below it, and the lowest
-level of every series (so the ground state and the resonance levels are always measured), are
-written to the levels file.  The engine uses a measured level where the file has one and the
-formula otherwise.  Levels
-above the last tabulated one are taken on trust from the published fit.
+is compared with every measured level below.  valid-from-n is the lowest n from which on every
+tabulated level agrees within TOLERANCE_PER_CM plus the level's stated uncertainty; all levels
+below it, and the lowest level of every series (so the ground state and the resonance levels are
+always measured), are written to the levels file.  The engine uses a measured level where the
+file has one and the formula otherwise.  Levels above the last tabulated one are taken on trust
+from the published fit.
 
-Where the measured levels come from.  NIST Atomic Spectra Database energy levels, read in the
-copies that the ARC library keeps (nikolasibalic/ARC-Alkali-Rydberg-Calculator, files
-arc/data/{li,na,k,rb,cs}_NIST_level_data.ascii at commit
-8c04bb59fd275ae68fee329c7ceb1dee93206c60).  Those copies give energies in eV; they are
-transcribed here digit for digit (values NIST prints in brackets, i.e. not observed, are
-left out) and converted with the exact SI factor e/(h c) = 8065.543937... cm^-1 per eV.  The
-copies do not say which ASD version they were exported from.  NIST compiles these levels for
-the natural element; isotope shifts (below 0.01 cm^-1 here) are not applied.
+Check 2 (series regularity of the measured levels).  For each series, the measured levels'
+own quantum defects delta_n = n - sqrt(R_M / (limit - E_n)) are fitted, by least squares, with
+delta = c0 + c1 x + c2 x^2 (c2 dropped for series of three or four), x = 1 / (n - delta_n)^2, leaving out the lowest member (whose defect
+the expansion does not follow).  A mistyped digit shows as a residual far above its neighbours';
+a level passes when its residual, expressed as an energy, is within REGULARITY_PER_CM (1 cm^-1:
+the scatter of the older measurements of the lighter atoms reaches 0.5 cm^-1, so this check sees
+mistakes in the units digit and above; finer digits rest on the D lines and on check 1).
+
+Check 3 (core polarizabilities).  alpha_d against Marinescu et al.'s alpha_c (within 10 %); the
+core-polarization quantum defect of the Rb g series, delta = n^3 (alpha_d <r^-4> + alpha_q <r^-6>)/2
+with hydrogenic expectation values, against the measured g-series defects of Afrousheh et al.,
+Phys. Rev. A 74, 062712 (2006) (delta_g(30) = 0.00405(6)) and Moore et al., arXiv:2004.11407
+(2020) (delta_0 = 0.0039990(21), delta_2 = -0.0202(21)), both read in the papers' abstracts.
+
+Check 4 (model potentials).  The lowest bound state of each l in the model potential
+(Numerov, logarithmic grid, eigenvalue by node counting and bisection) against the measured
+fine-structure-weighted level; Marinescu et al. fitted their parameters to such energies, so a
+mistyped digit shows as a disagreement far beyond the others.
 """
 
-from fractions import Fraction
+import math
 
 # CODATA 2018 (the constants edition Ritzwerk uses, api PhysicalConstants).
-E_CHARGE = 1.602176634e-19
-PLANCK = 6.62607015e-34
 C = 299792458.0
-PER_CM_PER_EV = E_CHARGE / (PLANCK * C * 100.0)
 R_INF_PER_CM = 109737.31568160
 ELECTRON_MASS_U = 5.48579909065e-4
+HARTREE_PER_CM = 2 * R_INF_PER_CM
 
 TOLERANCE_PER_CM = 0.1
+REGULARITY_PER_CM = 1.0
 
 # Atomic masses in u, AME2020, as in ../nuclear/isotopes.csv (the provider computes R_M from that
-# file at run time; these copies serve only the residual check below).
+# file at run time; these copies serve only the checks below).
 MASS_U = {"li-7": 7.01600343426, "na-23": 22.98976928195, "k-39": 38.96370648482,
           "rb-85": 84.91178973604, "rb-87": 86.909180529, "cs-133": 132.905451958}
 
-ARC = "ARC (nikolasibalic/ARC-Alkali-Rydberg-Calculator) arc/alkali_atom_data.py at commit " \
-      "348be8b2fcad113e566d395676e60e1e3abccd9a"
-PAIR = "pairinteraction (pairinteraction/pairinteraction) calc/databases/quantum_defects.sql at " \
-       "commit 4b3609aaf9ef209101404e6930e1803203e90b5b"
-MQDT = "an unnamed public Python MQDT code whose file defines classes Hydrogen_n, Rubidium87, " \
-       "Potassium39, Cesium133, Lithium7, Sodium23 (found by the code search, repository not shown)"
-
 # ---------------------------------------------------------------------------------------------
-# Quantum-defect sets.  Each series: (l, 2j, [d0, d2, d4, ...], citation, where it was read).
+# Papers.
 # ---------------------------------------------------------------------------------------------
-LI_2003 = "W. Li, I. Mourachko, M. W. Noel and T. F. Gallagher, Phys. Rev. A 67, 052502 (2003)"
-HAN_2006 = "J. Han, Y. Jamil, D. V. L. Norum, P. J. Tanner and T. F. Gallagher, Phys. Rev. A 74, 054502 (2006)"
-MACK_2011 = "M. Mack et al., Phys. Rev. A 83, 052515 (2011)"
-DEIGLMAYR_2016 = "J. Deiglmayr et al., Phys. Rev. A 93, 013424 (2016)"
-GOY_1982 = "P. Goy, J. M. Raimond, G. Vitrant and S. Haroche, Phys. Rev. A 26, 2733 (1982)"
-WEBER_1987 = "K.-H. Weber and C. J. Sansonetti, Phys. Rev. A 35, 4650 (1987)"
-LN_1984 = "C.-J. Lorenzen and K. Niemax, Z. Phys. A 315, 127 (1984)"
+LI_2003 = ("W. Li, I. Mourachko, M. W. Noel and T. F. Gallagher, Phys. Rev. A 67, 052502 (2003), "
+           "doi:10.1103/PhysRevA.67.052502")
+HAN_2006 = ("J. Han, Y. Jamil, D. V. L. Norum, P. J. Tanner and T. F. Gallagher, Phys. Rev. A 74, 054502 (2006), "
+            "doi:10.1103/PhysRevA.74.054502")
+MACK_2011 = ("M. Mack, F. Karlewski, H. Hattermann, S. Hoeckh, F. Jessen, D. Cano and J. Fortagh, "
+             "Phys. Rev. A 83, 052515 (2011), doi:10.1103/PhysRevA.83.052515")
+DEIGLMAYR_2016 = ("J. Deiglmayr, H. Herburger, H. Sassmannshausen, P. Jansen, H. Schmutz and F. Merkt, "
+                  "Phys. Rev. A 93, 013424 (2016), doi:10.1103/PhysRevA.93.013424")
+GOY_1982 = ("P. Goy, J. M. Raimond, G. Vitrant and S. Haroche, Phys. Rev. A 26, 2733 (1982), "
+            "doi:10.1103/PhysRevA.26.2733")
+WEBER_1987 = "K.-H. Weber and C. J. Sansonetti, Phys. Rev. A 35, 4650 (1987), doi:10.1103/PhysRevA.35.4650"
+LN_1984 = "C.-J. Lorenzen and K. Niemax, Z. Phys. A 315, 127 (1984), doi:10.1007/BF01419370"
 LN_1983 = "C.-J. Lorenzen and K. Niemax, Phys. Scr. 27, 300 (1983)"
-GOY_1986 = "P. Goy, J. Liang, M. Gross and S. Haroche, Phys. Rev. A 34, 2889 (1986)"
+GOY_1986 = ("P. Goy, J. Liang, M. Gross and S. Haroche, Phys. Rev. A 34, 2889 (1986), "
+            "doi:10.1103/PhysRevA.34.2889")
+MARINESCU_1994 = ("M. Marinescu, H. R. Sadeghpour and A. Dalgarno, Phys. Rev. A 49, 982 (1994), "
+                  "doi:10.1103/PhysRevA.49.982")
+SHEN_2024 = ("P. Shen et al., Phys. Rev. Lett. 133, 233005 (2024), doi:10.1103/PhysRevLett.133.233005")
+NIST_ASD = "NIST Atomic Spectra Database (A. Kramida, Yu. Ralchenko, J. Reader and NIST ASD Team)"
 
+# ---------------------------------------------------------------------------------------------
+# Quantum-defect sets.  Each series: (l, 2j, [d0, d2, d4, ...], paper).  All digits from memory.
+# ---------------------------------------------------------------------------------------------
 RB_85_SERIES = [
-    (0, 1, [3.1311804, 0.1784], LI_2003, ARC + " (Rubidium85); same in bgrich/starkr R/quantum_defect.R"),
-    (1, 1, [2.6548849, 0.2900], LI_2003, ARC + " (Rubidium85); same in " + PAIR),
-    (1, 3, [2.6416737, 0.2950], LI_2003, ARC + " (Rubidium85); same in " + PAIR),
-    (2, 3, [1.34809171, -0.60286], LI_2003, ARC + " (Rubidium85)"),
-    (2, 5, [1.34646572, -0.59600], LI_2003, ARC + " (Rubidium85)"),
-    (3, 5, [0.0165192, -0.085], HAN_2006, ARC + " (Rubidium85); same in " + PAIR),
-    (3, 7, [0.0165437, -0.086], HAN_2006, ARC + " (Rubidium85); same in " + PAIR),
+    (0, 1, [3.1311804, 0.1784], LI_2003),
+    (1, 1, [2.6548849, 0.2900], LI_2003),
+    (1, 3, [2.6416737, 0.2950], LI_2003),
+    (2, 3, [1.34809171, -0.60286], LI_2003),
+    (2, 5, [1.34646572, -0.59600], LI_2003),
+    (3, 5, [0.0165192, -0.085], HAN_2006),
+    (3, 7, [0.0165437, -0.086], HAN_2006),
 ]
 RB_87_SERIES = [
-    (0, 1, [3.1311807, 0.1787], MACK_2011, PAIR + "; same in ryd-numerov 0.5.5 elements/rubidium.py"),
-    (1, 1, [2.6548849, 0.2900], LI_2003 + " (measured in Rb-85)", PAIR),
-    (1, 3, [2.6416737, 0.2950], LI_2003 + " (measured in Rb-85)", PAIR),
-    (2, 3, [1.3480948, -0.6054], MACK_2011, PAIR + "; same in ryd-numerov 0.5.5 elements/rubidium.py"),
-    (2, 5, [1.3464622, -0.5940], MACK_2011, PAIR + "; same in ryd-numerov 0.5.5 elements/rubidium.py"),
-    (3, 5, [0.0165192, -0.085], HAN_2006 + " (measured in Rb-85)", PAIR),
-    (3, 7, [0.0165437, -0.086], HAN_2006 + " (measured in Rb-85)", PAIR),
+    (0, 1, [3.1311807, 0.1787], MACK_2011),
+    (1, 1, [2.6548849, 0.2900], LI_2003 + " (measured in Rb-85)"),
+    (1, 3, [2.6416737, 0.2950], LI_2003 + " (measured in Rb-85)"),
+    (2, 3, [1.3480948, -0.6054], MACK_2011),
+    (2, 5, [1.3464622, -0.5940], MACK_2011),
+    (3, 5, [0.0165192, -0.085], HAN_2006 + " (measured in Rb-85)"),
+    (3, 7, [0.0165437, -0.086], HAN_2006 + " (measured in Rb-85)"),
 ]
 CS_SERIES = [
-    (0, 1, [4.0493532, 0.2391, 0.06, 11.0, -209.0], DEIGLMAYR_2016, PAIR + "; same in ryd-numerov (cesium.py)"),
-    (1, 1, [3.5915871, 0.36273], DEIGLMAYR_2016, PAIR),
-    (1, 3, [3.5590676, 0.37469], DEIGLMAYR_2016, PAIR),
-    # Goy et al. 1982 (2.475365, 0.5554; in pairinteraction) misses the measured 13d3/2 by 0.9 cm-1,
-    # so the D3/2 series is taken from Lorenzen & Niemax 1984, as ARC does.
-    (2, 3, [2.4754562, 0.009320, -0.43498, -0.76358, -18.0061], LN_1984, ARC + " (Caesium)"),
-    (2, 5, [2.4663144, 0.01381, -0.392, -1.9], DEIGLMAYR_2016, PAIR),
-    (3, 5, [0.03341424, -0.198674, 0.28953, -0.2601], WEBER_1987, PAIR + "; same in " + ARC),
-    (3, 7, [0.033537, -0.191], GOY_1982, PAIR),
+    (0, 1, [4.0493532, 0.2391, 0.06, 11.0, -209.0], DEIGLMAYR_2016),
+    (1, 1, [3.5915871, 0.36273], DEIGLMAYR_2016),
+    (1, 3, [3.5590676, 0.37469], DEIGLMAYR_2016),
+    # The d3/2 series of Goy et al. 1982 (d0 = 2.475365, d2 = 0.5554) misses the measured 13d3/2 by
+    # 0.9 cm-1 (check 1), so the D3/2 series is taken from Lorenzen & Niemax 1984.
+    (2, 3, [2.4754562, 0.009320, -0.43498, -0.76358, -18.0061], LN_1984),
+    (2, 5, [2.4663144, 0.01381, -0.392, -1.9], DEIGLMAYR_2016),
+    (3, 5, [0.03341424, -0.198674, 0.28953, -0.2601], WEBER_1987),
+    (3, 7, [0.033537, -0.191], GOY_1982),
 ]
 K_SERIES = [
-    (0, 1, [2.1801985, 0.13558, 0.0759, 0.117, -0.206], LN_1983, ARC + " (Potassium39)"),
-    (1, 1, [1.713892, 0.233294, 0.16137, 0.5345, -0.234], LN_1983, ARC + " (Potassium39)"),
-    (1, 3, [1.710848, 0.235437, 0.11551, 1.1015, -2.0356], LN_1983, ARC + " (Potassium39)"),
-    (2, 3, [0.27697, -1.024911, -0.709174, 11.839, -26.689], LN_1983, ARC + " (Potassium39)"),
-    (2, 5, [0.2771580, -1.025635, -0.59201, 10.0053, -19.0244], LN_1983, ARC + " (Potassium39)"),
-    (3, 5, [0.010098, -0.100224, 1.56334, -12.6851], LN_1983, ARC + " (Potassium39)"),
-    (3, 7, [0.010098, -0.100224, 1.56334, -12.6851], LN_1983, ARC + " (Potassium39)"),
+    (0, 1, [2.1801985, 0.13558, 0.0759, 0.117, -0.206], LN_1983),
+    (1, 1, [1.713892, 0.233294, 0.16137, 0.5345, -0.234], LN_1983),
+    (1, 3, [1.710848, 0.235437, 0.11551, 1.1015, -2.0356], LN_1983),
+    (2, 3, [0.27697, -1.024911, -0.709174, 11.839, -26.689], LN_1983),
+    (2, 5, [0.2771580, -1.025635, -0.59201, 10.0053, -19.0244], LN_1983),
+    (3, 5, [0.010098, -0.100224, 1.56334, -12.6851], LN_1983),
+    (3, 7, [0.010098, -0.100224, 1.56334, -12.6851], LN_1983),
 ]
 NA_SERIES = [
-    (0, 1, [1.347964, 0.060673, 0.0233, -0.0085], LN_1983, ARC + " (Sodium)"),
-    (1, 1, [0.855380, 0.11363, 0.0384, 0.1412], LN_1983, ARC + " (Sodium)"),
-    (1, 3, [0.854565, 0.114195, 0.0352, 0.1533], LN_1983, ARC + " (Sodium)"),
-    (2, 3, [0.015543, -0.08535, 0.7958, -4.0513], LN_1983, ARC + " (Sodium)"),
-    (2, 5, [0.015543, -0.08535, 0.7958, -4.0513], LN_1983, ARC + " (Sodium)"),
-    (3, 5, [0.001453, 0.017312, -0.7809, 7.021], LN_1983, ARC + " (Sodium)"),
-    (3, 7, [0.001453, 0.017312, -0.7809, 7.021], LN_1983, ARC + " (Sodium)"),
+    (0, 1, [1.347964, 0.060673, 0.0233, -0.0085], LN_1983),
+    (1, 1, [0.855380, 0.11363, 0.0384, 0.1412], LN_1983),
+    (1, 3, [0.854565, 0.114195, 0.0352, 0.1533], LN_1983),
+    (2, 3, [0.015543, -0.08535, 0.7958, -4.0513], LN_1983),
+    (2, 5, [0.015543, -0.08535, 0.7958, -4.0513], LN_1983),
+    (3, 5, [0.001453, 0.017312, -0.7809, 7.021], LN_1983),
+    (3, 7, [0.001453, 0.017312, -0.7809, 7.021], LN_1983),
 ]
 LI_SERIES = [
-    (0, 1, [0.3995101, 0.029], GOY_1986, ARC + " (Lithium7); same in " + PAIR),
-    (1, 1, [0.0471780, -0.024], GOY_1986, ARC + " (Lithium7); same in " + PAIR),
-    (1, 3, [0.0471665, -0.024], GOY_1986, ARC + " (Lithium7); same in " + PAIR),
-    (2, 3, [0.002129, -0.01491, 0.1759, -0.8507], LN_1983, ARC + " (Lithium7)"),
-    (2, 5, [0.002129, -0.01491, 0.1759, -0.8507], LN_1983, ARC + " (Lithium7)"),
-    (3, 5, [-0.000077, 0.021856, -0.4211, 2.3891], LN_1983, ARC + " (Lithium7)"),
-    (3, 7, [-0.000077, 0.021856, -0.4211, 2.3891], LN_1983, ARC + " (Lithium7)"),
+    (0, 1, [0.3995101, 0.029], GOY_1986),
+    (1, 1, [0.0471780, -0.024], GOY_1986),
+    (1, 3, [0.0471665, -0.024], GOY_1986),
+    (2, 3, [0.002129, -0.01491, 0.1759, -0.8507], LN_1983),
+    (2, 5, [0.002129, -0.01491, 0.1759, -0.8507], LN_1983),
+    (3, 5, [-0.000077, 0.021856, -0.4211, 2.3891], LN_1983),
+    (3, 7, [-0.000077, 0.021856, -0.4211, 2.3891], LN_1983),
 ]
 
-# Ionisation limits above the ground level's fine-structure (hyperfine-centroid) energy, cm^-1.
-# Rb-87: Mack et al. 2011 give 1 010 029.1646(3) GHz from 5S1/2 F = 1 (read in ryd-numerov
-# 0.5.5 elements/rubidium.py and in ARC); F = 1 lies 5/8 of the ground hyperfine splitting below
-# the centroid, 4.271676631815181 GHz as ARC subtracts it (read there; 5/8 of 6 834.682 610 904 MHz,
-# Steck, Rubidium 87 D Line Data, from memory, gives the same), so the limit above the centroid is
-# 1 010 029.1646 - 4.2716766 GHz.
+# Ionisation limits above the ground level's hyperfine centroid, cm^-1:
+# (value, provenance, source, second value for the check: (cm^-1, its source) or None).
+# Rb-87: Mack et al. give 1 010 029.1646(3) GHz from 5S1/2 F = 1 (from memory); F = 1 lies 5/8 of
+# the ground hyperfine splitting 6 834.682 610 904 MHz (Steck, Rubidium 87 D Line Data; from
+# memory) below the centroid.
 RB87_LIMIT_GHZ_FROM_F1 = 1010029.1646
-RB87_F1_BELOW_CENTROID_GHZ = 4.271676631815181
+RB87_GROUND_SPLITTING_GHZ = 6.834682610904
+ASD_IE = "NIST ASD ionisation energy (from memory)"
 LIMITS = {
-    "li-7": (43487.15, "published", LN_1983 + ", read in " + ARC + " (Lithium6; the Lithium7 class quotes the "
-             "same 5.391719 eV from R. L. Kelly, J. Phys. Chem. Ref. Data 16, Suppl. 1 (1987))"),
-    "na-23": (41449.44, "published", LN_1983 + ", read in " + ARC + " (Sodium)"),
-    "k-39": (35009.8139375, "published", "weighted average of the values in " + LN_1983 + ", read in " + ARC
-             + " (Potassium39)"),
-    "rb-85": (33690.79890, "from-memory", LI_2003 + "; recalled, and the same digits are in a public "
-              "code's table of Rb-85 ionisation frequencies (c*33690.79890; repository not shown)"),
-    "rb-87": ((RB87_LIMIT_GHZ_FROM_F1 - RB87_F1_BELOW_CENTROID_GHZ) / (C / 1e7), "published",
-              MACK_2011 + ": 1010029.1646(3) GHz from 5S1/2 F=1, read in ryd-numerov 0.5.5 elements/rubidium.py "
-              "and " + ARC + "; minus 4.271676631815181 GHz (5/8 of the ground hyperfine splitting, as ARC "
-              "subtracts it) to refer it to the hyperfine centroid"),
-    "cs-133": (31406.4677325, "published", DEIGLMAYR_2016 + ", read in " + ARC + " (Caesium) and " + PAIR
-               + "; the 2025 erratum (Phys. Rev. A 112, 049902) gives 31406.4677482, read in the rydstate "
-               "package's sqdt cesium file, 1.6e-5 cm-1 higher, not applied"),
+    "li-7": (43487.15, "from-memory", LN_1983, (43487.114, ASD_IE)),
+    "na-23": (41449.44, "from-memory", LN_1983, (41449.451, ASD_IE)),
+    "k-39": (35009.8139375, "from-memory", "weighted average of the series limits in " + LN_1983,
+             (35009.8139710, "M. Peper, F. Helmrich, J. Butscher, J. A. Agner, H. Schmutz, F. Merkt and J. Deiglmayr, "
+              "Phys. Rev. A 100, 012501 (2019), arXiv:1907.02776: 35009.8139710(22) cm-1 (read in the paper's "
+              "abstract)")),
+    "rb-85": (33690.79890, "from-memory", LI_2003, None),
+    "rb-87": ((RB87_LIMIT_GHZ_FROM_F1 - 5.0 / 8 * RB87_GROUND_SPLITTING_GHZ) / (C / 1e7), "from-memory",
+              MACK_2011 + ": 1010029.1646(3) GHz from 5S1/2 F=1; minus 5/8 of the ground hyperfine splitting "
+              "6834.682610904 MHz (D. A. Steck, Rubidium 87 D Line Data; from memory) to refer it to "
+              "the hyperfine centroid", None),
+    "cs-133": (31406.4677325, "published", DEIGLMAYR_2016 + ": 31406.4677325(14) cm-1 (read in the paper; "
+               "arXiv:1601.08005)", (31406.46775148, SHEN_2024 + ": 31406.46775148(14) cm-1 (read in its "
+               "abstract; not applied)")),
 }
 
-# Core (ion) dipole and quadrupole polarizabilities in atomic units, for l >= 4.
+# Core (ion) dipole (a0^3) and quadrupole (a0^5) polarizabilities, for l >= 4, with their source.
+BERL_2020 = ("S. Berl et al., \"Core polarizability of rubidium using spectroscopy of the ng to nh, ni Rydberg "
+             "transitions\", Phys. Rev. A 102, 062818 (2020), doi:10.1103/PhysRevA.102.062818, arXiv:2004.08226: "
+             "9.116(9) and 38.4(6), read in the paper's abstract")
 CORE = {
-    "li-7": (0.1884, 0.046, "Phys. Rev. A 16, 1141 (1977) as cited in " + MQDT),
-    "na-23": (0.9980, 0.351, "Phys. Rev. A 38, 4985 (1988) as cited in " + MQDT),
-    "k-39": (5.4880, 17.89, "Phys. Rev. A 100, 012501 (2019) as cited in " + MQDT),
-    "rb-85": (9.116, 38.4, "Phys. Rev. A 102, 062818 (2020) as cited in " + MQDT),
-    "rb-87": (9.116, 38.4, "Phys. Rev. A 102, 062818 (2020) as cited in " + MQDT),
-    "cs-133": (15.5440, 70.7, "Phys. Rev. A 22, 2672 (1980) as cited in " + MQDT
-               + " (Marinescu et al. 1994 use 15.644 for the dipole part)"),
+    "li-7": (0.1884, 0.046, "from memory (published Li+ values as recalled; the paper was not at hand)"),
+    "na-23": (0.9980, 0.351, "\"Resonance measurements of d-f-g-h intervals in Rydberg states of sodium and a "
+              "redetermination of the core polarizabilities\", Phys. Rev. A 38, 4985 (1988) (journal reference from "
+              "memory): 0.9980(33) and 0.351(81), read in the paper's abstract"),
+    "k-39": (5.4880, 17.89, "from memory, as recalled from M. Peper et al., Phys. Rev. A 100, 012501 (2019), "
+             "arXiv:1907.02776 (its abstract, read, reports core-polarizability estimates without the digits)"),
+    "rb-85": (9.116, 38.4, BERL_2020),
+    "rb-87": (9.116, 38.4, BERL_2020),
+    "cs-133": (15.5440, 70.7, "from memory (published Cs+ values as recalled; the paper was not at hand)"),
 }
 
 # ---------------------------------------------------------------------------------------------
-# Measured levels (n, l, 2j, energy in eV as printed in the ARC copy of NIST ASD).
+# Measured levels (n, l, 2j, energy in cm^-1 as the NIST ASD prints it; from memory).
+# Li 10s (42298.1, recalled to one decimal only) is left out: it is 1.5 cm-1 off both the Rydberg-
+# Ritz formula of Goy et al. 1986 and the regularity of the Li s series (checks 1 and 2), so the
+# formula gives 10s.  Li 4f (36630.2) and 5f (39104.5) are left out for the same reason: they lie
+# above the hydrogenic 4f and 5f, where no f level can lie, 1.9 and 7.0 cm-1 above the Rydberg-Ritz
+# formula of Lorenzen & Niemax 1983 (check 1), and 4f is 2 cm-1 above the bound state of the model
+# potential too (check 4); with no measured f level the formula gives the Li f series from 4f on.
 # ---------------------------------------------------------------------------------------------
 RB_LEVELS = """
-5 0 1 0.000000
-5 1 1 1.5595910
-5 1 3 1.5890490
-4 2 5 2.3997392
-4 2 3 2.3997945
-6 0 1 2.4961130
-6 1 1 2.9402952
-6 1 3 2.9499052
-5 2 3 3.1864602
-5 2 5 3.1868275
-7 0 1 3.2622023
-4 3 7 3.3217959
-4 3 5 3.3217991
-7 1 1 3.451102
-7 1 3 3.455453
-6 2 3 3.5567503
-6 2 5 3.5570309
-8 0 1 3.6013460
-5 3 7 3.6299804
-5 3 5 3.6299828
-8 1 1 3.699061
-8 1 3 3.701398
-7 2 3 3.7542554
-7 2 5 3.7544422
-9 0 1 3.7813977
-6 3 7 3.7973832
-6 3 5 3.7973851
-9 1 1 3.838415
-9 1 3 3.839814
-8 2 3 3.8709650
-8 2 5 3.8710906
-10 0 1 3.8884333
-7 3 7 3.8982760
-7 3 5 3.8982775
-10 1 1 3.924577
-10 1 3 3.925483
-9 2 3 3.9454070
-9 2 5 3.9454932
-11 0 1 3.9572309
-8 3 7 3.9637270
-8 3 5 3.9637277
-11 1 1 3.981573
-11 1 3 3.982189
-10 2 3 3.9957142
-10 2 5 3.9957760
-12 0 1 4.0040585
-12 1 1 4.021241
-12 1 3 4.021680
-13 1 1 4.049947
-13 1 3 4.050270
-14 1 1 4.071395
-14 1 3 4.071643
+5 0 1 0
+5 1 1 12578.950
+5 1 3 12816.545
+4 2 5 19355.202
+4 2 3 19355.648
+6 0 1 20132.509
+6 1 1 23715.080
+6 1 3 23792.590
+5 2 3 25700.535
+5 2 5 25703.497
+7 0 1 26311.436
+4 3 7 26792.091
+4 3 5 26792.117
+7 1 1 27835.02
+7 1 3 27870.11
+6 2 3 28687.126
+6 2 5 28689.389
+8 0 1 29046.815
+5 3 7 29277.767
+5 3 5 29277.786
+8 1 1 29834.94
+8 1 3 29853.79
+7 2 3 30280.112
+7 2 5 30281.619
+9 0 1 30499.030
+6 3 7 30627.961
+6 3 5 30627.977
+9 1 1 30958.91
+9 1 3 30970.19
+8 2 3 31221.439
+8 2 5 31222.452
+10 0 1 31362.330
+7 3 7 31441.717
+7 3 5 31441.729
+10 1 1 31653.85
+10 1 3 31661.16
+9 2 3 31821.854
+9 2 5 31822.549
+11 0 1 31917.220
+8 3 7 31969.615
+8 3 5 31969.620
+11 1 1 32113.55
+11 1 3 32118.52
+10 2 3 32227.609
+10 2 5 32228.107
+12 0 1 32294.910
+12 1 1 32433.50
+12 1 3 32437.04
+13 1 1 32665.03
+13 1 3 32667.63
+14 1 1 32838.02
+14 1 3 32840.02
 """
 CS_LEVELS = """
-6 0 1 0.0000000
-6 1 1 1.385928556931
-6 1 3 1.45462062847
-5 2 3 1.79767865
-5 2 5 1.809777716
-7 0 1 2.29811256
-7 1 1 2.6985591
-7 1 3 2.7210063
-6 2 3 2.80065674
-6 2 5 2.80597136
-8 0 1 3.0149421447
-4 3 7 3.03414681
-4 3 5 3.03416930
-8 1 1 3.187489220
-8 1 3 3.1977393
-7 2 3 3.22951970
-7 2 5 3.23211578
-9 0 1 3.33649680
-5 3 7 3.34399670
-5 3 5 3.34401524
-9 1 1 3.42655072
-9 1 3 3.43209053
-8 2 3 3.44815415
-8 2 5 3.44959735
-10 0 1 3.50878102
-6 3 7 3.51239873
-6 3 5 3.51241184
-10 1 1 3.56167064
-10 1 3 3.56500143
-9 2 3 3.57430087
-9 2 5 3.575182391
-11 0 1 3.611874040
-7 3 7 3.613879874
-7 3 5 3.613889011
-11 1 1 3.645559685
-11 1 3 3.6477171
-10 2 3 3.65360188
-10 2 5 3.654178675
-12 0 1 3.678462642
-8 3 7 3.679688392
-8 3 5 3.679694976
-12 1 1 3.701229633
-12 1 3 3.7027067
-11 2 3 3.70667358
-11 2 5 3.707071139
-13 0 1 3.723962981
-9 3 7 3.724767241
-9 3 5 3.724772064
-13 1 1 3.740066036
-13 1 3 3.7411211
-12 2 3 3.74392542
-12 2 5 3.744210821
-14 0 1 3.756429078
-10 3 7 3.756985908
-10 3 5 3.756989520
-14 1 1 3.768235687
-14 1 3 3.7690157
-13 2 3 3.77107263
-13 2 5 3.771284325
-15 0 1 3.780404938
+6 0 1 0
+6 1 1 11178.26815870
+6 1 3 11732.3071041
+5 2 3 14499.2568
+5 2 5 14596.84232
+7 0 1 18535.5286
+7 1 1 21765.348
+7 1 3 21946.397
+6 2 3 22588.8210
+6 2 5 22631.6863
+8 0 1 24317.149400
+4 3 7 24472.0455
+4 3 5 24472.2269
+8 1 1 25708.83548
+8 1 3 25791.508
+7 2 3 26047.8342
+7 2 5 26068.7730
+9 0 1 26910.6627
+5 3 7 26971.1535
+5 3 5 26971.3030
+9 1 1 27636.9966
+9 1 3 27681.6782
+8 2 3 27811.2400
+8 2 5 27822.8802
+10 0 1 28300.2287
+6 3 7 28329.4075
+6 3 5 28329.5133
+10 1 1 28726.8123
+10 1 3 28753.6769
+9 2 3 28828.6820
+9 2 5 28835.79192
+11 0 1 29131.73004
+7 3 7 29147.90818
+7 3 5 29147.98188
+11 1 1 29403.42310
+11 1 3 29420.824
+10 2 3 29468.2878
+10 2 5 29472.93995
+12 0 1 29668.80336
+8 3 7 29678.68970
+8 3 5 29678.74280
+12 1 1 29852.43153
+12 1 3 29864.345
+11 2 3 29896.3399
+11 2 5 29899.54646
+13 0 1 30035.78836
+9 3 7 30042.27515
+9 3 5 30042.31405
+13 1 1 30165.66826
+13 1 3 30174.178
+12 2 3 30196.7963
+12 2 5 30199.09821
+14 0 1 30297.64510
+10 3 7 30302.13624
+10 3 5 30302.16537
+14 1 1 30392.87183
+14 1 3 30399.163
+13 2 3 30415.7533
+13 2 5 30417.46075
+15 0 1 30491.02346
 """
 NA_LEVELS = """
-3 0 1 0.00000000
-3 1 1 2.102297159
-3 1 3 2.104429184
-4 0 1 3.1913531
-3 2 5 3.6169708
-3 2 3 3.6169770
-4 1 1 3.752628
-4 1 3 3.753322
-5 0 1 4.1163588
-4 2 5 4.2834964
-4 2 3 4.2835008
-4 3 7 4.288232
-4 3 5 4.288232
-5 1 1 4.344453
-5 1 3 4.344760
-6 0 1 4.5096298
-5 2 5 4.5919720
-5 2 3 4.5919745
-5 3 7 4.594563
-5 3 5 4.594563
-6 1 1 4.624154
-6 1 3 4.624314
-7 0 1 4.7128925
-6 2 5 4.7594130
-6 2 3 4.7594146
-6 3 5 4.760967
-6 3 7 4.760967
-7 1 1 4.778373
-7 1 3 4.778466
-8 0 1 4.831479
-7 2 3 4.860296
-7 2 5 4.860296
-7 3 7 4.861294
-7 3 5 4.861294
-8 1 1 4.872374
-8 1 3 4.872435
-9 0 1 4.906656
-8 2 5 4.925731
-8 2 3 4.925731
-8 3 7 4.926408
-8 3 5 4.926408
-10 0 1 4.957294
-9 2 5 4.970565
-9 2 3 4.970565
-9 3 7 4.971046
-9 3 5 4.971046
-10 1 1 4.9763302
-10 1 3 4.9763591
-11 0 1 4.9930167
-10 2 5 5.0026278
-10 2 3 5.0026282
-11 1 1 5.0068445
-11 1 3 5.0068659
-12 0 1 5.0191575
+3 0 1 0
+3 1 1 16956.17025
+3 1 3 16973.36619
+4 0 1 25739.999
+3 2 5 29172.837
+3 2 3 29172.887
+4 1 1 30266.99
+4 1 3 30272.58
+5 0 1 33200.673
+4 2 5 34548.729
+4 2 3 34548.764
+4 3 7 34586.92
+4 3 5 34586.92
+5 1 1 35040.38
+5 1 3 35042.85
+6 0 1 36372.618
+5 2 5 37036.752
+5 2 3 37036.772
+5 3 7 37057.65
+5 3 5 37057.65
+6 1 1 37296.32
+6 1 3 37297.61
+7 0 1 38012.042
+6 2 5 38387.255
+6 2 3 38387.268
+6 3 5 38399.79
+6 3 7 38399.79
+7 1 1 38540.18
+7 1 3 38540.93
+8 0 1 38968.51
+7 2 3 39200.93
+7 2 5 39200.93
+7 3 7 39208.98
+7 3 5 39208.98
+8 1 1 39298.35
+8 1 3 39298.84
+9 0 1 39574.85
+8 2 5 39728.70
+8 2 3 39728.70
+8 3 7 39734.16
+8 3 5 39734.16
+10 0 1 39983.27
+9 2 5 40090.31
+9 2 3 40090.31
+9 3 7 40094.19
+9 3 5 40094.19
+10 1 1 40136.810
+10 1 3 40137.043
+11 0 1 40271.396
+10 2 5 40348.915
+10 2 3 40348.918
+11 1 1 40382.925
+11 1 3 40383.097
+12 0 1 40482.236
 """
 K_LEVELS = """
-4 0 1 0.0000000
-4 1 1 1.6099578300
-4 1 3 1.6171129956
-5 0 1 2.6069600
-3 2 5 2.6699600
-3 2 3 2.6702462
-5 1 1 3.0625810
-5 1 3 3.0649066
-4 2 5 3.3968046
-4 2 3 3.3969373
-6 0 1 3.40345430
-4 3 5 3.487409
-4 3 7 3.487409
-6 1 1 3.595451
-6 1 3 3.596498
-5 2 5 3.74249324
-5 2 3 3.74255569
-7 0 1 3.75352843
-5 3 5 3.794751
-5 3 7 3.794751
-7 1 1 3.852177
-7 1 3 3.852735
-6 2 5 3.92979078
-6 2 3 3.92982371
-8 0 1 3.93840474
-6 3 5 3.961688
-6 3 7 3.961688
-8 1 1 3.995693
-8 1 3 3.996024
-7 2 5 4.04167259
-7 2 3 4.04169188
-9 0 1 4.04787961
-7 3 5 4.062317
-7 3 7 4.062317
-9 1 1 4.08406463
-9 1 3 4.08427828
-8 2 5 4.11356430
-8 2 3 4.11357652
-10 0 1 4.11803924
-8 3 5 4.127608
-8 3 7 4.127608
-10 1 1 4.14234063
-10 1 3 4.14248544
-9 2 5 4.16240481
-9 2 3 4.16241296
-11 0 1 4.16569046
-9 3 5 4.172356
-9 3 7 4.172356
-11 1 1 4.18279261
-11 1 3 4.18289558
-10 2 5 4.19706291
-10 2 3 4.19706864
-12 0 1 4.19952811
-10 3 7 4.204356
-10 3 5 4.204356
-12 1 1 4.21201674
-12 1 3 4.21209218
+4 0 1 0
+4 1 1 12985.185724
+4 1 3 13042.896027
+5 0 1 21026.551
+3 2 5 21534.680
+3 2 3 21536.988
+5 1 1 24701.382
+5 1 3 24720.139
+4 2 5 27397.077
+4 2 3 27398.147
+6 0 1 27450.7104
+4 3 5 28127.85
+4 3 7 28127.85
+6 1 1 28999.27
+6 1 3 29007.71
+5 2 5 30185.2439
+5 2 3 30185.7476
+7 0 1 30274.2487
+5 3 5 30606.73
+5 3 7 30606.73
+7 1 1 31069.90
+7 1 3 31074.40
+6 2 5 31695.9005
+6 2 3 31696.1661
+8 0 1 31765.3767
+6 3 5 31953.17
+6 3 7 31953.17
+8 1 1 32227.44
+8 1 3 32230.11
+7 2 5 32598.2881
+7 2 3 32598.4437
+9 0 1 32648.3511
+7 3 5 32764.80
+7 3 7 32764.80
+9 1 1 32940.2030
+9 1 3 32941.9262
+8 2 5 33178.1339
+8 2 3 33178.2324
+10 0 1 33214.2267
+8 3 5 33291.40
+8 3 7 33291.40
+10 1 1 33410.2306
+10 1 3 33411.3986
+9 2 5 33572.0592
+9 2 3 33572.1249
+11 0 1 33598.5597
+9 3 5 33652.32
+9 3 7 33652.32
+11 1 1 33736.4979
+11 1 3 33737.3284
+10 2 5 33851.5956
+10 2 3 33851.6418
+12 0 1 33871.4788
+10 3 7 33910.42
+10 3 5 33910.42
+12 1 1 33972.2064
+12 1 3 33972.8148
 """
 LI_LEVELS = """
-2 0 1 0.00000
-2 1 1 1.847818
-2 1 3 1.847860
-3 0 1 3.373129
-3 1 1 3.834258
-3 1 3 3.834258
-3 2 3 3.878608
-3 2 5 3.878613
-4 0 1 4.340942
-4 1 3 4.521648
-4 1 1 4.521648
-4 2 3 4.540720
-4 2 5 4.540723
-4 3 7 4.54157
-4 3 5 4.54157
-5 0 1 4.748533
-5 1 3 4.837313
-5 1 1 4.837313
-5 2 3 4.847154
-5 2 5 4.847155
-5 3 7 4.84834
-5 3 5 4.84834
-6 0 1 4.957835
-6 1 1 5.007826
-6 1 3 5.007826
-6 2 3 5.013587
-6 2 5 5.013589
-7 0 1 5.07937
-7 1 1 5.110300
-7 1 3 5.110300
-7 2 3 5.11391
-7 2 5 5.11391
-8 0 1 5.15614
-8 1 1 5.176542
-8 1 3 5.176542
-8 2 5 5.17898
-8 2 3 5.17898
-9 0 1 5.20775
-9 1 3 5.222000
-9 1 1 5.222000
-9 2 5 5.22362
-9 2 3 5.22362
-10 0 1 5.2443
-10 1 1 5.254346
-10 1 3 5.254346
-10 2 3 5.2556
-10 2 5 5.2556
+2 0 1 0
+2 1 1 14903.66
+2 1 3 14904.00
+3 0 1 27206.12
+3 1 1 30925.38
+3 1 3 30925.38
+3 2 3 31283.08
+3 2 5 31283.12
+4 0 1 35012.06
+4 1 3 36469.55
+4 1 1 36469.55
+4 2 3 36623.38
+4 2 5 36623.40
+5 0 1 38299.50
+5 1 3 39015.56
+5 1 1 39015.56
+5 2 3 39094.93
+5 2 5 39094.94
+6 0 1 39987.64
+6 1 1 40390.84
+6 1 3 40390.84
+6 2 3 40437.31
+6 2 5 40437.32
+7 0 1 40967.9
+7 1 1 41217.35
+7 1 3 41217.35
+7 2 3 41246.5
+7 2 5 41246.5
+8 0 1 41587.1
+8 1 1 41751.63
+8 1 3 41751.63
+8 2 5 41771.3
+8 2 3 41771.3
+9 0 1 42003.3
+9 1 3 42118.27
+9 1 1 42118.27
+9 2 5 42131.3
+9 2 3 42131.3
+10 1 1 42379.16
+10 1 3 42379.16
+10 2 3 42389.3
+10 2 5 42389.3
 """
 
-# Marinescu, Sadeghpour & Dalgarno, Phys. Rev. A 49, 982 (1994): element, l, alpha_c (a0^3), Z, a1, a2,
-# a3, a4, r_c, as printed in pairinteraction's quantum_defects.sql (commit 4b3609aa, table
-# model_potential); ARC's alkali_atom_data.py has the same numbers except Rb l = 1 a4, printed
-# there as -0.8163314 (pairinteraction: -0.81633314, used here).
-MARINESCU_1994 = """
-Li 0 0.1923 3 2.47718079 1.84150932 -0.02169712 -0.11988362 0.61340824
-Li 1 0.1923 3 3.45414648 2.55151080 -0.21646561 -0.06990078 0.61566441
-Li 2 0.1923 3 2.51909839 2.43712450 0.32505524 0.10602430 2.34126273
+# Marinescu, Sadeghpour and Dalgarno (1994), Table I, from memory: element, Z, alpha_c (a0^3), l
+# (the last l of an element serves every higher l), a1, a2, a3 (a0^-1), a4 (a0^-2), r_c (a0).
+MODEL_POTENTIALS = """
+Li 3 0.1923 0 2.47718079 1.84150932 -0.02169712 -0.11988362 0.61340824
+Li 3 0.1923 1 3.45414648 2.55151080 -0.21646561 -0.06990078 0.61566441
+Li 3 0.1923 2 2.51909839 2.43712450 0.32505524 0.10602430 2.34126273
 Li 3 0.1923 3 2.51909839 2.43712450 0.32505524 0.10602430 2.34126273
-Na 0 0.9448 11 4.82223117 2.45449865 -1.12255048 -1.42631393 0.45489422
-Na 1 0.9448 11 5.08382502 2.18226881 -1.19534623 -1.03142861 0.45798739
-Na 2 0.9448 11 3.53324124 2.48697936 -0.75688448 -1.27852357 0.71875312
-Na 3 0.9448 11 1.11056646 1.05458759 1.73203428 -0.09265696 28.6735059
-K 0 5.3310 19 3.56079437 1.83909642 -1.74701102 -1.03237313 0.83167545
-K 1 5.3310 19 3.65670429 1.67520788 -2.07416615 -0.89030421 0.85235381
-K 2 5.3310 19 4.12713694 1.79837462 -1.69935174 -0.98913582 0.83216907
-K 3 5.3310 19 1.42310446 1.27861156 4.77441476 -0.94829262 6.50294371
-Rb 0 9.076 37 3.69628474 1.64915255 -9.86069196 0.19579987 1.66242117
-Rb 1 9.076 37 4.44088978 1.92828831 -16.79597770 -0.81633314 1.50195124
-Rb 2 9.076 37 3.78717363 1.57027864 -11.6558897 0.52942835 4.86851938
-Rb 3 9.076 37 2.39848933 1.76810544 -12.0710678 0.77256589 4.79831327
-Cs 0 15.6440 55 3.49546309 1.47533800 -9.72143084 0.02629242 1.92046930
-Cs 1 15.6440 55 4.69366096 1.71398344 -24.65624280 -0.09543125 2.13383095
-Cs 2 15.6440 55 4.32466196 1.61365288 -6.70128850 -0.74095193 0.93007296
-Cs 3 15.6440 55 3.01048361 1.40000001 -3.20036138 0.00034538 1.99969677
+Na 11 0.9448 0 4.82223117 2.45449865 -1.12255048 -1.42631393 0.45489422
+Na 11 0.9448 1 5.08382502 2.18226881 -1.19534623 -1.03142861 0.45798739
+Na 11 0.9448 2 3.53324124 2.48697936 -0.75688448 -1.27852357 0.71875312
+Na 11 0.9448 3 1.11056646 1.05458759 1.73203428 -0.09265696 28.6735059
+K 19 5.3310 0 3.56079437 1.83909642 -1.74701102 -1.03237313 0.83167545
+K 19 5.3310 1 3.65670429 1.67520788 -2.07416615 -0.89030421 0.85235381
+K 19 5.3310 2 4.12713694 1.79837462 -1.69935174 -0.98913582 0.83216907
+K 19 5.3310 3 1.42310446 1.27861156 4.77441476 -0.94829262 6.50294371
+Rb 37 9.076 0 3.69628474 1.64915255 -9.86069196 0.19579987 1.66242117
+Rb 37 9.076 1 4.44088978 1.92828831 -16.79597770 -0.81633314 1.50195124
+Rb 37 9.076 2 3.78717363 1.57027864 -11.6558897 0.52942835 4.86851938
+Rb 37 9.076 3 2.39848933 1.76810544 -12.0710678 0.77256589 4.79831327
+Cs 55 15.6440 0 3.49546309 1.47533800 -9.72143084 0.02629242 1.92046930
+Cs 55 15.6440 1 4.69366096 1.71398344 -24.65624280 -0.09543125 2.13383095
+Cs 55 15.6440 2 4.32466196 1.61365288 -6.70128850 -0.74095193 0.93007296
+Cs 55 15.6440 3 3.01048361 1.40000001 -3.20036138 0.00034538 1.99969677
 """
-
-NIST_COPY = {"li": "li_NIST_level_data.ascii", "na": "na_NIST_level_data.ascii", "k": "k_NIST_level_data.ascii",
-             "rb": "rb_NIST_level_data.ascii", "cs": "cs_NIST_level_data.ascii"}
 
 ATOMS = [
-    # id, symbol, Z, A, series, levels text, element key, version
-    ("li-7", "Li", 3, 7, LI_SERIES, LI_LEVELS, "li", "1986"),
-    ("na-23", "Na", 11, 23, NA_SERIES, NA_LEVELS, "na", "1983"),
-    ("k-39", "K", 19, 39, K_SERIES, K_LEVELS, "k", "1983"),
-    ("rb-85", "Rb", 37, 85, RB_85_SERIES, RB_LEVELS, "rb", "2006"),
-    ("rb-87", "Rb", 37, 87, RB_87_SERIES, RB_LEVELS, "rb", "2011"),
-    ("cs-133", "Cs", 55, 133, CS_SERIES, CS_LEVELS, "cs", "2016"),
+    # id, symbol, Z, A, series, levels text, D-line source, version
+    ("li-7", "Li", 3, 7, LI_SERIES, LI_LEVELS, "C. J. Sansonetti et al., Phys. Rev. Lett. 107, 023001 (2011), Li-7 D lines (from memory)", "1986"),
+    ("na-23", "Na", 11, 23, NA_SERIES, NA_LEVELS, "D. A. Steck, Sodium D Line Data (from memory)", "1983"),
+    ("k-39", "K", 19, 39, K_SERIES, K_LEVELS, "T. G. Tiecke, Properties of Potassium (from memory)", "1983"),
+    ("rb-85", "Rb", 37, 85, RB_85_SERIES, RB_LEVELS, "D. A. Steck, Rubidium 85 D Line Data (from memory)", "2006"),
+    ("rb-87", "Rb", 37, 87, RB_87_SERIES, RB_LEVELS, "D. A. Steck, Rubidium 87 D Line Data (from memory)", "2011"),
+    ("cs-133", "Cs", 55, 133, CS_SERIES, CS_LEVELS, "D. A. Steck, Cesium D Line Data (from memory)", "2016"),
 ]
 
 L_LETTERS = "spdfghik"
@@ -509,16 +547,16 @@ def ritz(limit, r_m, coefficients, n):
     return limit - r_m / (n - defect(coefficients, n)) ** 2
 
 
-def half_unit_of_last_digit_ev(text):
+def last_digit_unit(text):
     decimals = len(text.split(".")[1]) if "." in text else 0
-    return 0.5 * 10.0 ** (-decimals)
+    return 10.0 ** (-decimals)
 
 
 def parse_levels(text):
     rows = []
     for line in text.strip().splitlines():
-        n, l, two_j, ev = line.split()
-        rows.append((int(n), int(l), int(two_j), ev))
+        n, l, two_j, energy = line.split()
+        rows.append((int(n), int(l), int(two_j), energy))
     return rows
 
 
@@ -535,102 +573,335 @@ def fmt(x):
     return repr(float(x))
 
 
-def main():
-    report = ["# Rydberg-Ritz fit against the measured levels (NIST ASD copies in ARC), cm^-1",
-              "# written by make_rydberg_data.py; tolerance %.2f cm^-1 + rounding of the tabulated value"
-              % TOLERANCE_PER_CM,
-              "# atom  series  n  measured  fit  fit-measured  allowed"]
-    for atom_id, symbol, z, a, series, levels_text, element, version in ATOMS:
+def solve3(a, b):
+    """Solves the 3x3 (or smaller) linear system a x = b by Gaussian elimination with pivoting."""
+    m = len(b)
+    a = [row[:] + [b[i]] for i, row in enumerate(a)]  # any size m, despite the name
+    for col in range(m):
+        pivot = max(range(col, m), key=lambda r: abs(a[r][col]))
+        a[col], a[pivot] = a[pivot], a[col]
+        for r in range(m):
+            if r != col:
+                f = a[r][col] / a[col][col]
+                for k in range(col, m + 1):
+                    a[r][k] -= f * a[col][k]
+    return [a[i][m] / a[i][i] for i in range(m)]
+
+
+def regularity(points, limit, r_m):
+    """Check 2: residuals (cm^-1) of each level from a least-squares fit of its series' own defects.
+
+    points: [(n, energy)] of one series without its lowest member.  Returns {n: residual} or {}
+    when there are too few points to test anything (a fit needs one point more than parameters)."""
+    data = []
+    for n, e in points:
+        n_star = math.sqrt(r_m / (limit - e))
+        data.append((n, n_star, n - n_star, 1.0 / n_star ** 2))
+    def fit(rows):
+        params = 3 if len(rows) >= 5 else 2 if len(rows) >= 3 else 0
+        if params == 0:
+            return None
+        ata = [[0.0] * params for _ in range(params)]
+        atb = [0.0] * params
+        for n, n_star, d, x in rows:
+            basis = [x ** k for k in range(params)]
+            for i in range(params):
+                atb[i] += basis[i] * d
+                for k in range(params):
+                    ata[i][k] += basis[i] * basis[k]
+        c = solve3(ata, atb)
+        return {n: 2 * r_m / n_star ** 3 * (sum(c[k] * x ** k for k in range(params)) - d) for n, n_star, d, x in data}
+
+    out = fit(data)
+    if out is None:
+        return {}
+    return out
+
+
+def numerov_lowest(z, alpha_c, p, l, nodes, r_max, e_guess):
+    """Check 4: energy (hartree) of the bound state of the model potential with `nodes` radial nodes.
+
+    u(r) = r R(r) on r = exp(s), u = exp(s/2) w: w'' = [2 r^2 (V - E) + (l + 1/2)^2] w, Numerov on
+    a uniform s grid, bisection on E by the number of sign changes of w (it jumps by one at each
+    eigenvalue), within a factor two of e_guess (nan when no eigenvalue with that node count lies there)."""
+    a1, a2, a3, a4, rc = p
+    s0, s1, steps = math.log(1e-5), math.log(r_max), 6000
+    h = (s1 - s0) / steps
+    rs = [math.exp(s0 + i * h) for i in range(steps + 1)]
+    vs = []
+    for r in rs:
+        zl = 1 + (z - 1) * math.exp(-a1 * r) - r * (a3 + a4 * r) * math.exp(-a2 * r)
+        vs.append(-zl / r - alpha_c / (2 * r ** 4) * (1 - math.exp(-(r / rc) ** 6)))
+    q = (l + 0.5) ** 2
+
+    def count(e):
+        g = [2 * rs[i] ** 2 * (vs[i] - e) + q for i in range(steps + 1)]
+        w0, w1 = 0.0, 1e-30
+        changes = 0
+        for i in range(1, steps):
+            f0 = 1 - h * h * g[i - 1] / 12
+            f1 = 1 + 5 * h * h * g[i] / 12
+            f2 = 1 - h * h * g[i + 1] / 12
+            w2 = (2 * f1 * w1 - f0 * w0) / f2
+            if (w2 < 0) != (w1 < 0):
+                changes += 1
+            w0, w1 = w1, w2
+            if abs(w1) > 1e200:
+                w0, w1 = w0 * 1e-200, w1 * 1e-200
+        return changes
+
+    lo, hi = 2 * e_guess, 0.5 * e_guess
+    if not count(lo) <= nodes < count(hi):
+        return float("nan")
+    for _ in range(50):
+        mid = 0.5 * (lo + hi)
+        if count(mid) > nodes:
+            hi = mid
+        else:
+            lo = mid
+    return 0.5 * (lo + hi)
+
+
+def series_of(levels, l, two_j):
+    return sorted((n, float(e), e) for n, ll, tj, e in levels if ll == l and tj == two_j)
+
+
+def check_model_potentials():
+    """Check 4 for every row of MODEL_POTENTIALS: [(fields, state, model, measured, relative difference)]."""
+    results = []
+    by_symbol = {atom[1]: atom for atom in ATOMS if atom[0] != "rb-85"}
+    for line in MODEL_POTENTIALS.strip().splitlines():
+        el, zt, ac, lt, a1, a2, a3, a4, rc = line.split()
+        atom_id, symbol, z, a, series, levels_text, d_line_source, version = by_symbol[el]
+        l = int(lt)
         r_m = rydberg_per_cm(MASS_U[atom_id])
-        limit, limit_provenance, limit_source = LIMITS[atom_id]
+        limit = LIMITS[atom_id][0]
+        levels = parse_levels(levels_text)
+        lows = [n for n, ll, tj, e in levels if ll == l]
+        if lows:
+            n_low = min(lows)
+            members = [(tj, float(e)) for n, ll, tj, e in levels if ll == l and n == n_low]
+        else:  # no measured level: the published Rydberg-Ritz formula's lowest level stands in
+            n_low = l + 1
+            members = [(tj, ritz(limit, r_m, co, n_low)) for ll, tj, co, paper in series if ll == l]
+        e_mean = sum((tj + 1) * e for tj, e in members) / sum(tj + 1 for tj, e in members)
+        measured = -(limit - e_mean) / (2 * r_m)
+        n_star = 1 / math.sqrt(-2 * measured)
+        model = numerov_lowest(int(zt), float(ac), [float(v) for v in (a1, a2, a3, a4, rc)], l, n_low - l - 1,
+                               4 * n_star ** 2 + 40, measured)
+        state = "%d%s" % (n_low, L_LETTERS[l]) + ("" if lows else " (formula)")
+        results.append((line.split(), state, model, measured, model / measured - 1))
+    return results
+
+
+def main():
+    model_results = check_model_potentials()
+    model_check = {(fields[0], int(fields[3])): rel for fields, state, model, measured, rel in model_results}
+    report = ["# Checks of the built-in Rydberg data, written by make_rydberg_data.py (see its docstring)",
+              "#",
+              "# Check 1: Rydberg-Ritz formula of each series against the measured levels, cm^-1; tolerance %.2f "
+              "cm^-1 + half a unit in the last digit of the tabulated level; X marks a level outside it" % TOLERANCE_PER_CM,
+              "# Check 2: residual of each measured level from a least-squares fit of its own series' quantum "
+              "defects (lowest member left out), cm^-1; ! marks one above %.2f cm^-1" % REGULARITY_PER_CM,
+              "# atom  series  n  measured  formula  formula-measured  allowed  regularity-residual"]
+    problems = []
+    second_values = {}
+    for atom_id, symbol, z, a, series, levels_text, d_line_source, version in ATOMS:
+        for l, two_j, coefficients, paper in series:
+            second_values.setdefault((symbol, l, two_j), []).append((atom_id, coefficients, paper))
+    for atom_id, symbol, z, a, series, levels_text, d_line_source, version in ATOMS:
+        r_m = rydberg_per_cm(MASS_U[atom_id])
+        limit, limit_provenance, limit_source, limit_second = LIMITS[atom_id]
         levels = parse_levels(levels_text)
         valid_from = {}
-        for l, two_j, coefficients, citation, read_in in series:
-            measured = sorted((n, ev) for n, ll, tj, ev in levels if ll == l and tj == two_j)
+        row_check = {}
+        level_check = {}
+        for l, two_j, coefficients, paper in series:
+            measured = series_of(levels, l, two_j)
+            regular = regularity([(n, e) for n, e, t in measured[1:]], limit, r_m)
             first_good = None
-            for n, ev in measured:
-                e = float(ev) * PER_CM_PER_EV
+            within = []
+            for n, e, text in measured:
                 fit = ritz(limit, r_m, coefficients, n)
-                allowed = TOLERANCE_PER_CM + half_unit_of_last_digit_ev(ev) * PER_CM_PER_EV
+                allowed = TOLERANCE_PER_CM + 0.5 * last_digit_unit(text)
                 good = abs(fit - e) <= allowed
-                report.append("%-6s %s%s  %2d  %.4f  %.4f  %+.4f  %.4f%s" % (
-                    atom_id, L_LETTERS[l], j_text(two_j), n, e, fit, fit - e, allowed, "" if good else "  X"))
+                reg = regular.get(n)
+                reg_text = "-" if reg is None else "%+.4f%s" % (reg, "" if abs(reg) <= REGULARITY_PER_CM else " !")
+                if reg is not None and abs(reg) > REGULARITY_PER_CM:
+                    problems.append("%s %s check 2: %s" % (atom_id, label(n, l, two_j), reg_text))
+                report.append("%-6s %s%s  %2d  %.4f  %.4f  %+.4f  %.4f  %s%s" % (
+                    atom_id, L_LETTERS[l], j_text(two_j), n, e, fit, fit - e, allowed, reg_text,
+                    "" if good else "  X"))
+                level_check[(n, l, two_j)] = (fit - e, reg)
                 if good and first_good is None:
                     first_good = n
                 elif not good:
                     first_good = None
-            last = measured[-1][0] if measured else l + 1
-            valid_from[(l, two_j)] = first_good if first_good is not None else last + 1
+                    within = []
+                if good:
+                    within.append((n, abs(fit - e)))
+            if measured:
+                valid_from[(l, two_j)] = first_good if first_good is not None else measured[-1][0] + 1
+            else:
+                valid_from[(l, two_j)] = l + 1
+            if within:
+                text = "check 1: %s agree%s within %.2f cm-1 (largest |formula - measured| %.4f cm-1)" % (
+                    "the measured level n = %d" % within[0][0] if len(within) == 1 else
+                    "the %d measured levels n = %d-%d" % (len(within), within[0][0], within[-1][0]),
+                    "s" if len(within) == 1 else "", TOLERANCE_PER_CM, max(d for n, d in within))
+            elif measured:
+                n, e, t = measured[-1]
+                text = "check 1: no measured level within %.2f cm-1; the highest one (n = %d) is %+.4f cm-1 off" % (
+                    TOLERANCE_PER_CM, n, ritz(limit, r_m, coefficients, n) - e)
+            else:
+                text = "check 1: no measured level (the recalled ones failed the checks and were left out); " \
+                       "check 4: the model potential's %d%s bound state is %+.1e (relative) from this formula's" % (
+                           l + 1, L_LETTERS[l], model_check[(symbol, l)])
+            for other_id, other_coefficients, other_paper in second_values[(symbol, l, two_j)]:
+                if other_paper.split(" (")[0] != paper.split(" (")[0]:
+                    d50 = defect(coefficients, 50) - defect(other_coefficients, 50)
+                    text += "; second value: the %s set (%s) gives a defect at n = 50 differing by %.1e (%.4f cm-1)" % (
+                        other_id, other_paper.split(",")[0] + " et al." if "," in other_paper else other_paper,
+                        d50, 2 * r_m / 50 ** 3 * abs(d50))
+            row_check[(l, two_j)] = text
+        # limit check
+        if limit_second is not None:
+            limit_check = "check 1 (the series meet the measured levels with this limit); %s: %s, %+.6f cm-1 from " \
+                          "this value" % (limit_second[1], fmt(limit_second[0]), limit_second[0] - limit) \
+                if limit_second[0] != 31406.46775148 else \
+                "check 1 (the series meet the measured levels with this limit); second value: %s, %+.8f cm-1 from " \
+                "this one" % (limit_second[1], limit_second[0] - limit)
+        else:
+            other = LIMITS["rb-87" if atom_id == "rb-85" else "rb-85"][0]
+            limit_check = "check 1 (the series meet the measured levels with this limit); the other Rb isotope's " \
+                          "limit here is %+.4f cm-1 from it" % (other - limit)
+        # core check
+        alpha_d, alpha_q, core_source = CORE[atom_id]
+        mp_alpha = {ln.split()[0]: float(ln.split()[2]) for ln in MODEL_POTENTIALS.strip().splitlines()}[symbol]
+        ratio = alpha_d / mp_alpha - 1
+        if abs(ratio) > 0.10:
+            problems.append("%s core: alpha_d %s is %.1f %% from Marinescu's %s" % (atom_id, alpha_d, 100 * ratio, mp_alpha))
+        core_check = "check 3: alpha_d is %+.1f %% from the alpha_c = %s a0^3 of Marinescu et al. 1994" % (
+            100 * ratio, fmt(mp_alpha))
+        if symbol == "Rb":
+            g30 = polarization_defect(30, 4, alpha_d, alpha_q)
+            g35 = polarization_defect(35, 4, alpha_d, alpha_q)
+            moore35 = 0.0039990 - 0.0202 / (35 - 0.0039990) ** 2
+            core_check += "; g-series defect from these values %.5f at n = 30 (Afrousheh et al. 2006 measured " \
+                          "0.00405(6)) and %.5f at n = 35 (Moore et al. 2020: %.5f)" % (g30, g35, moore35)
+            report.append("# check 3 %s: %s" % (atom_id, core_check))
+        else:
+            report.append("# check 3 %s: %s" % (atom_id, core_check))
         # quantum-defect file
         species = "%s-%d I" % (symbol, a)
+        papers = sorted({s[3].split(" (measured")[0] for s in series})
         out = ["# ritzwerk-quantum-defects 1",
                "# id: quantum-defects-%s" % atom_id,
                "# title: %s quantum defects (modified Rydberg-Ritz) for l = 0..3" % species,
                "# species: %s" % species,
-               "# source: " + "; ".join(sorted({s[3] for s in series})) + "; the numbers were read in the "
-               "public copies named per row (column read-in), not in the papers",
-               "# provenance: published",
+               "# source: " + "; ".join(papers) + " (the paper of each series is named per row)",
+               "# provenance: from-memory",
                "# version: %s" % version,
                "# limit-per-cm: %s" % fmt(limit),
                "# limit-provenance: %s" % limit_provenance,
                "# limit-source: %s" % limit_source,
-               "# core-dipole-polarizability-au: %s" % fmt(CORE[atom_id][0]),
-               "# core-quadrupole-polarizability-au: %s" % fmt(CORE[atom_id][1]),
-               "# core-source: %s" % CORE[atom_id][2],
+               "# limit-check: %s" % limit_check,
+               "# core-dipole-polarizability-au: %s" % fmt(alpha_d),
+               "# core-quadrupole-polarizability-au: %s" % fmt(alpha_q),
+               "# core-source: %s" % core_source,
+               "# core-check: %s" % core_check,
                "# levels: levels-%s" % atom_id,
-               "# note: energies are above the ground level (hyperfine centroid); R_M is not stored: the provider "
-               "computes it from the atomic mass in nuclear/isotopes.csv; valid-from-n is the lowest n from which "
-               "the formula agrees with the measured levels within %.2f cm-1 (fit-residuals.txt, written by "
-               "make_rydberg_data.py); below it the engine uses levels-%s.csv" % (TOLERANCE_PER_CM, atom_id),
-               "l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,read-in"]
-        for l, two_j, coefficients, citation, read_in in series:
+               "# note: the digits of every series were typed in from memory with its paper as citation and "
+               "checked as the column checked says (fit-residuals.txt; written by make_rydberg_data.py); "
+               "energies are above the ground level (hyperfine centroid); R_M is not stored: the provider "
+               "computes it from the atomic mass in nuclear/isotopes.csv; valid-from-n is the lowest n from "
+               "which the formula agrees with the measured levels within %.2f cm-1; below it the engine uses "
+               "levels-%s.csv" % (TOLERANCE_PER_CM, atom_id),
+               "l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,checked"]
+        for l, two_j, coefficients, paper in series:
             cs = list(coefficients) + [0.0] * (5 - len(coefficients))
-            out.append("%d,%s,%s,%d,published,%s,%s" % (
+            out.append("%d,%s,%s,%d,from-memory,%s,%s" % (
                 l, j_text(two_j), ",".join(fmt(c) for c in cs), valid_from[(l, two_j)],
-                citation.replace(",", ";"), read_in.replace(",", ";")))
+                paper.replace(",", ";"), row_check[(l, two_j)].replace(",", ";")))
         with open("quantum-defects-%s.csv" % atom_id, "w") as f:
             f.write("\n".join(out) + "\n")
         # levels file
         keep = []
         lowest = {}
-        for n, l, two_j, ev in levels:
+        for n, l, two_j, e in levels:
             lowest[(l, two_j)] = min(n, lowest.get((l, two_j), n))
-        for n, l, two_j, ev in levels:
+        for n, l, two_j, e in levels:
             if n < valid_from[(l, two_j)] or n == lowest[(l, two_j)]:
-                keep.append((float(ev) * PER_CM_PER_EV, n, l, two_j, ev))
+                keep.append((float(e), n, l, two_j, e))
         keep.sort()
         lv = ["# ritzwerk-levels 1",
               "# id: levels-%s" % atom_id,
               "# title: %s measured levels below the quantum-defect fits" % species,
-              "# source: NIST Atomic Spectra Database levels of %s I, read in the copy %s in "
-              "nikolasibalic/ARC-Alkali-Rydberg-Calculator arc/data at commit "
-              "8c04bb59fd275ae68fee329c7ceb1dee93206c60 (in eV; ASD version not stated there)"
-              % (symbol, NIST_COPY[element]),
-              "# provenance: published",
-              "# version: NIST ASD (copy of unstated version)",
+              "# source: %s, %s I energy levels (natural element), from memory" % (NIST_ASD, symbol),
+              "# provenance: from-memory",
+              "# version: NIST ASD (version not re-checked)",
               "# energy-unit: cm-1",
-              "# note: converted from eV with e/(h c) = %s cm-1/eV (exact, SI 2019); levels of the natural "
-              "element, isotope shifts not applied; uncertainty is half a unit in the last eV digit printed; "
-              "written by make_rydberg_data.py" % fmt(PER_CM_PER_EV),
+              "# note: energies in cm-1 as the ASD prints them; uncertainty is half a unit in the last digit; "
+              "isotope shifts (below 0.01 cm-1 here) not applied; column note says how each level was checked "
+              "(D line: against %s; check 1: published Rydberg-Ritz formula minus level; check 2: residual "
+              "from the series' own regularity; fit-residuals.txt); written by make_rydberg_data.py"
+              % d_line_source,
               "species,label,energy,uncertainty,j,note"]
-        for e, n, l, two_j, ev in keep:
-            u = half_unit_of_last_digit_ev(ev) * PER_CM_PER_EV
-            lv.append("%s,%s,%s,%s,%s,measured; %s eV" % (species, label(n, l, two_j), "%.6f" % e, "%.2g" % u,
-                                                           j_text(two_j), ev))
+        for e, n, l, two_j, text in keep:
+            u = 0.0 if e == 0 else 0.5 * last_digit_unit(text)
+            if e == 0:
+                check = "ground level (the zero)"
+            else:
+                formula, reg = level_check[(n, l, two_j)]
+                if l == 1 and n == lowest[(l, two_j)]:
+                    check = "D line"
+                elif n == lowest[(l, two_j)]:
+                    check = "check 4 (model-potential bound state %+.1e relative)" % model_check[(symbol, l)]
+                else:
+                    check = "check 1 %+.4f cm-1" % formula
+                    check += "; check 2 %+.4f cm-1" % reg if reg is not None else "; check 2 not possible (too few members)"
+            lv.append("%s,%s,%s,%s,%s,from memory; %s" % (species, label(n, l, two_j), text, "%.2g" % u,
+                                                           j_text(two_j), check))
         with open("levels-%s.csv" % atom_id, "w") as f:
             f.write("\n".join(lv) + "\n")
-    mp = ["# ritzwerk Rydberg model potentials 1",
-          "# source: M. Marinescu, H. R. Sadeghpour and A. Dalgarno, Phys. Rev. A 49, 982 (1994), eqs. 5-7; "
-          "read in " + PAIR + " (table model_potential); ARC prints Rb l=1 a4 as -0.8163314, here -0.81633314",
-          "# provenance: published",
-          "# units: alpha_c in a0^3; a1, a2, a3 in a0^-1; a4 in a0^-2; r_c in a0; written by make_rydberg_data.py",
-          "element,l,alpha_c,z,a1,a2,a3,a4,rc"]
-    for line in MARINESCU_1994.strip().splitlines():
-        mp.append(",".join(line.split()))
+    # model potentials
+    report.append("# Check 4: lowest bound state of each l in the model potential against the measured level "
+                  "(fine-structure weighted), hartree")
+    report.append("# element  l  state  model  measured  relative-difference")
+    mp = ["# ritzwerk-model-potentials 1",
+          "# id: model-potentials",
+          "# title: l-dependent core model potentials of Li, Na, K, Rb and Cs",
+          "# source: " + MARINESCU_1994 + ", Table I",
+          "# provenance: from-memory",
+          "# version: 1994",
+          "# formula: V_l(r) = -Z_l(r)/r - alpha_c/(2 r^4) (1 - exp(-(r/r_c)^6)); "
+          "Z_l(r) = 1 + (Z - 1) exp(-a1 r) - r (a3 + a4 r) exp(-a2 r); atomic units",
+          "# note: one row per element and l; the row with the highest l of an element serves every higher l; "
+          "digits typed in from memory and checked by the bound states they give (column checked: check 4 of "
+          "fit-residuals.txt); written by make_rydberg_data.py",
+          "element,nuclear-charge,core-polarizability-a0^3,l,a1-per-a0,a2-per-a0,a3-per-a0,a4-per-a0^2,"
+          "cutoff-radius-a0,checked"]
+    for fields, state, model, measured, rel in model_results:
+        report.append("%-3s  %s  %-4s  %.6f  %.6f  %+.1e" % (fields[0], fields[3], state, model, measured, rel))
+        if not abs(rel) <= 0.01:
+            problems.append("%s l=%s check 4: %.1e" % (fields[0], fields[3], rel))
+        mp.append(",".join(fields + ["check 4: %s bound state %.6f hartree against the %s %.6f (%+.1e)" % (
+            state.split()[0], model, "formula's" if "formula" in state else "measured", measured, rel)]))
     with open("model-potentials.csv", "w") as f:
         f.write("\n".join(mp) + "\n")
+    if problems:
+        report.append("# problems:")
+        report.extend("#   " + p for p in problems)
     with open("fit-residuals.txt", "w") as f:
         f.write("\n".join(report) + "\n")
+
+
+def polarization_defect(n, l, alpha_d, alpha_q):
+    """Core-polarization quantum defect with hydrogenic <r^-4> and <r^-6> (as AlkaliAtom.polarizationDefect)."""
+    r4 = (3 * n * n - l * (l + 1)) / (2 * n ** 5 * (l - 0.5) * l * (l + 0.5) * (l + 1) * (l + 1.5))
+    r6 = (35 * n ** 4 - 5 * n * n * (6 * l * (l + 1) - 5) + 3 * (l - 1) * l * (l + 1) * (l + 2)) / (
+        8 * n ** 7 * (l - 1.5) * (l - 1) * (l - 0.5) * l * (l + 0.5) * (l + 1) * (l + 1.5) * (l + 2) * (l + 2.5))
+    return n ** 3 * (alpha_d * r4 + alpha_q * r6) / 2
 
 
 if __name__ == "__main__":
