@@ -18,6 +18,7 @@ import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.engine.identify.ShiftSearch;
 import org.ritzwerk.engine.identify.Tolerance;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;

@@ -21,6 +21,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.RydbergException;
 import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.engine.synth.Continuum;
