@@ -2,8 +2,6 @@ package org.ritzwerk.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -12,19 +10,17 @@ import java.util.concurrent.Callable;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LineList;
-import org.ritzwerk.engine.calibrate.DispersionFit;
+import org.ritzwerk.engine.calibrate.Calibration;
+import org.ritzwerk.engine.calibrate.CalibrationProblem;
+import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
-import org.ritzwerk.engine.calibrate.IdentifierRefinement;
-import org.ritzwerk.engine.calibrate.LampLines;
 import org.ritzwerk.engine.calibrate.LampMatch;
 import org.ritzwerk.engine.calibrate.LampMatcher;
-import org.ritzwerk.engine.calibrate.PeakFinder;
-import org.ritzwerk.engine.calibrate.PeakFlag;
-import org.ritzwerk.engine.calibrate.Peaks;
+import org.ritzwerk.engine.calibrate.LampSet;
 import org.ritzwerk.medium.Medium;
-import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.CalibrationFiles;
 import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.OutputFiles;
 import org.ritzwerk.refdata.SpectrumFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -133,47 +129,39 @@ final class CalibrateCommand implements Callable<Integer> {
         if (apply != null) {
             return applySolution(spectrum);
         }
-        Medium solutionMedium = AxisMedium.of(medium);
-        LampSet lampSet = lampLines(solutionMedium);
-        PeakFinder finder = PeakFinder.defaults().withThreshold(threshold).withNegativeCountsAllowed(true);
-        if (saturation != null) {
-            finder = finder.withSaturationLevel(saturation);
-        }
-        Peaks peaks;
-        try {
-            peaks = finder.find(spectrum.counts(), spectrum.sigmas());
-        } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException(spectrumFile + ": " + e.getMessage(), e);
-        }
-        LampMatcher matcher = LampMatcher.defaults().withTolerance(tolerance).withPrior(prior())
-                .withMinInlierFraction(minMatched);
-        LampMatch match = matcher.match(peaks, lampSet.lines);
-        DispersionFit fit = degree.equals("auto") ? DispersionFit.automatic(maxDegree)
-                : DispersionFit.ofDegree(parseDegree());
-        fit = fit.withClipping(clip, DispersionFit.DEFAULT_CLIP_ITERATIONS);
-        // Refine through the line identifier: every peak against every line, assigned optimally.
-        match = IdentifierRefinement.refine(match, match.fit(fit), peaks, lampSet.lines, lampSet.species(), tolerance);
-        DispersionSolution solution = match.fit(fit);
+        CalibrationProblem problem = CalibrationProblem.builder(spectrum.counts()).sigmas(spectrum.sigmas())
+                .lamp(lampSet(AxisMedium.of(medium))).prior(prior()).source(spectrum.source()).build();
+        Calibration calibration = calibrator().calibrate(problem);
+        DispersionSolution solution = calibration.solution();
+        String description = calibration.description();
         switch (format) {
             case json:
-                spec.commandLine().getOut().print(CalibrationFiles.toJson(solution, spectrum.pixels(),
-                        describe(spectrum, lampSet), lampSet.labelsOf(match)));
+                spec.commandLine().getOut().print(CalibrationFiles.toJson(solution, spectrum.pixels(), description,
+                        calibration.pairLabels()));
                 spec.commandLine().getOut().flush();
                 break;
             case csv:
-                pairs(solution, match, lampSet).write(spec.commandLine().getOut(), format);
+                pairs(calibration).write(spec.commandLine().getOut(), format);
                 break;
             default:
-                report(spectrum, peaks, match, solution, lampSet);
+                report(spectrum, calibration);
                 break;
         }
         if (out != null) {
-            CalibrationFiles.write(out, solution, spectrum.pixels(), describe(spectrum, lampSet), lampSet.labelsOf(match));
+            CalibrationFiles.write(out, solution, spectrum.pixels(), description, calibration.pairLabels());
         }
         if (plot != null) {
             drawResiduals(solution);
         }
         return 0;
+    }
+
+    private Calibrator calibrator() {
+        Calibrator calibrator = Calibrator.defaults().withThreshold(threshold).withTolerance(tolerance)
+                .withMinMatchedFraction(minMatched).withClipping(clip);
+        calibrator = degree.equals("auto") ? calibrator.withAutomaticDegree(maxDegree)
+                : calibrator.withDegree(parseDegree());
+        return saturation == null ? calibrator : calibrator.withSaturationLevel(saturation);
     }
 
     private int parseDegree() {
@@ -223,96 +211,51 @@ final class CalibrateCommand implements Callable<Integer> {
     }
 
     /** The lamp lines of every --lamp species and --lines set, in the solution's medium. */
-    private record LampSet(LampLines lines, List<String> labels, List<String> sets, Species[] species) {
-
-        List<String> labelsOf(LampMatch match) {
-            List<String> result = new ArrayList<>();
-            for (int i = 0; i < match.size(); i++) {
-                result.add(labels.get(match.lineIndex(i)));
-            }
-            return result;
-        }
-    }
-
-    private LampSet lampLines(Medium solutionMedium) throws IOException {
+    private LampSet lampSet(Medium solutionMedium) {
         if (lamps.isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give the lamp: --lamp \"Ne I\" (built-in sets) or --lines FILE");
         }
         DataRegistry registry = DataRegistry.discoverDefault();
-        List<String> sets = new ArrayList<>();
+        List<LineList> lists = new ArrayList<>();
         for (String option : lamps) {
             for (String text : option.split(",")) {
                 Species species = Species.parse(text.strip());
-                List<DataRegistry.Listing> found = registry.find(DataKind.LAMP_LINES, species);
-                if (found.isEmpty()) {
+                if (registry.find(DataKind.LAMP_LINES, species).isEmpty()) {
                     throw new IllegalArgumentException("--lamp: no built-in lamp set for " + species.notation()
                             + "; see `ritzwerk data`, or give your own list with --lines");
                 }
-                sets.add(found.get(0).info().id());
+                lists.add(registry.lampLines(species));
             }
         }
-        sets.addAll(lineSets);
-        List<Double> nm = new ArrayList<>();
-        List<Double> intensity = new ArrayList<>();
-        List<Double> sigma = new ArrayList<>();
-        List<String> labels = new ArrayList<>();
-        List<Species> speciesOfLine = new ArrayList<>();
-        boolean allSigmas = true;
-        for (String set : sets) {
-            LineList list = LineSets.load(set, "lamp set");
-            double[] converted = LineSets.wavelengths(list, Unit.NANOMETRE, solutionMedium);
-            for (int i = 0; i < list.size(); i++) {
-                nm.add(converted[i]);
-                intensity.add(list.intensity(i).orElse(1));
-                double u = list.uncertainty(i).orElse(Double.NaN);
-                allSigmas &= !Double.isNaN(u);
-                sigma.add(Math.abs(converted[i] / list.position(i)) * u);
-                speciesOfLine.add(list.species(i));
-                labels.add(list.species(i).notation() + " " + list.position(i) + " " + list.unit().symbol()
-                        + (list.medium() == null ? "" : " " + list.medium().label()));
-            }
+        for (String set : lineSets) {
+            lists.add(LineSets.load(set, "lamp set"));
         }
-        double[] w = nm.stream().mapToDouble(Double::doubleValue).toArray();
-        double[] in = intensity.stream().mapToDouble(Double::doubleValue).toArray();
-        double[] s = allSigmas ? sigma.stream().mapToDouble(Double::doubleValue).toArray() : null;
-        return new LampSet(LampLines.of(w, in, s, solutionMedium), labels, sets, speciesOfLine.toArray(new Species[0]));
+        return LampSet.of(lists, solutionMedium);
     }
 
-    private String describe(SpectrumFiles.Spectrum spectrum, LampSet lampSet) {
-        return "spectrum " + spectrum.source() + "; lamp sets " + String.join(", ", lampSet.sets());
-    }
-
-    private void report(SpectrumFiles.Spectrum spectrum, Peaks peaks, LampMatch match, DispersionSolution solution,
-            LampSet lampSet) {
+    private void report(SpectrumFiles.Spectrum spectrum, Calibration calibration) {
         PrintWriter w = spec.commandLine().getOut();
+        DispersionSolution solution = calibration.solution();
         int n = spectrum.pixels();
         w.printf(Locale.ROOT, "Spectrum: %s, %d pixels; lamp: %s%n", spectrum.source(), n,
-                String.join(", ", lampSet.sets()));
-        w.printf(Locale.ROOT, "Peaks found: %d above S/N %.3g (noise scale %.3g counts)%n", peaks.size(), threshold,
-                peaks.noiseScale());
+                String.join(", ", calibration.problem().lamp().setIds()));
+        w.printf(Locale.ROOT, "Peaks found: %d above S/N %.3g (noise scale %.3g counts)%n", calibration.peaks().size(),
+                calibration.settings().threshold(), calibration.peaks().noiseScale());
         w.printf(Locale.ROOT, "Paired with lamp lines: %d of the %d strongest peaks matched (%.0f %%)%n",
-                match.strongMatched(), match.strongPeaks(), 100 * match.inlierFraction());
-        double lowest = Double.POSITIVE_INFINITY;
-        double highest = Double.NEGATIVE_INFINITY;
-        for (int i = 0; i < solution.size(); i++) {
-            if (!solution.isRejected(i)) {
-                lowest = Math.min(lowest, solution.pixel(i));
-                highest = Math.max(highest, solution.pixel(i));
-            }
-        }
+                calibration.strongMatched(), calibration.strongPeaks(), 100 * calibration.matchedFraction());
         w.printf(Locale.ROOT, "Solution: degree %d in %s wavelengths, %d lines used, %d rejected%n",
                 solution.degree(), solution.medium().label(), solution.usedCount(), solution.rejectedCount());
         w.printf(Locale.ROOT, "RMS of the residuals: %.4g nm = %.3g pixel (reduced chi-square %.3g)%n",
                 solution.rmsNm(), solution.rmsPixels(), solution.reducedChiSquare());
-        w.printf(Locale.ROOT, "Coverage: lines from pixel %.1f to %.1f, %.0f %% of the detector%n", lowest, highest,
-                100 * (highest - lowest) / Math.max(1, n - 1));
+        w.printf(Locale.ROOT, "Coverage: lines from pixel %.1f to %.1f, %.0f %% of the detector%n",
+                calibration.lowestUsedPixel(), calibration.highestUsedPixel(), 100 * calibration.coverage());
         w.println();
         w.printf(Locale.ROOT, "%8s %8s %-28s %14s %11s %9s %s%n", "pixel", "+-", "line", "solution nm", "resid nm",
                 "resid px", "");
-        List<String> labels = lampSet.labelsOf(match);
+        LampMatch match = calibration.match();
         for (int i = 0; i < solution.size(); i++) {
             w.printf(Locale.ROOT, "%8.3f %8.3f %-28s %14.5f %11.5f %9.4f %s%n", solution.pixel(i),
-                    match.pixelSigma(i), labels.get(i), solution.wavelengthAt(solution.pixel(i)),
+                    match.pixelSigma(i), calibration.pairLabel(i), solution.wavelengthAt(solution.pixel(i)),
                     solution.residualNm(i), solution.residualPixels(i), solution.isRejected(i) ? "rejected" : "");
         }
         w.println();
@@ -321,10 +264,7 @@ final class CalibrateCommand implements Callable<Integer> {
             w.printf(Locale.ROOT, "%10.1f %14.5f %12.2g %12.6f%n", p, solution.wavelengthAt(p),
                     solution.wavelengthSigmaAt(p), solution.dispersionAt(p));
         }
-        long saturated = 0;
-        for (int k = 0; k < peaks.size(); k++) {
-            saturated += peaks.has(k, PeakFlag.SATURATED) ? 1 : 0;
-        }
+        int saturated = calibration.saturatedPeaks();
         if (saturated > 0) {
             w.printf(Locale.ROOT, "%nNote: %d peak(s) reached the saturation level; their centroids come from the wings.%n",
                     saturated);
@@ -332,7 +272,9 @@ final class CalibrateCommand implements Callable<Integer> {
         w.flush();
     }
 
-    private static Table pairs(DispersionSolution solution, LampMatch match, LampSet lampSet) {
+    private static Table pairs(Calibration calibration) {
+        DispersionSolution solution = calibration.solution();
+        LampMatch match = calibration.match();
         Table table = new Table(List.of(
                 Table.Column.number("pixel", "pixel", "%.3f"),
                 Table.Column.number("pixel_sigma", "+-", "%.3f"),
@@ -342,9 +284,8 @@ final class CalibrateCommand implements Callable<Integer> {
                 Table.Column.number("residual_nm", "resid nm", "%.5f"),
                 Table.Column.number("residual_pixels", "resid px", "%.4f"),
                 Table.Column.text("used", "used")));
-        List<String> labels = lampSet.labelsOf(match);
         for (int i = 0; i < solution.size(); i++) {
-            table.add(solution.pixel(i), match.pixelSigma(i), labels.get(i), solution.wavelength(i),
+            table.add(solution.pixel(i), match.pixelSigma(i), calibration.pairLabel(i), solution.wavelength(i),
                     solution.wavelengthAt(solution.pixel(i)), solution.residualNm(i), solution.residualPixels(i),
                     solution.isRejected(i) ? "false" : "true");
         }
@@ -364,35 +305,17 @@ final class CalibrateCommand implements Callable<Integer> {
     }
 
     private int applySolution(SpectrumFiles.Spectrum spectrum) throws IOException {
-        CalibrationFiles.Calibration calibration = CalibrationFiles.read(apply);
-        DispersionSolution solution = calibration.solution();
-        int n = spectrum.pixels();
-        if (n != calibration.pixels()) {
-            throw new IllegalArgumentException(spectrumFile + " has " + n + " pixels but " + apply
-                    + " was made for " + calibration.pixels());
+        CalibrationFiles.Calibration saved = CalibrationFiles.read(apply);
+        if (spectrum.pixels() != saved.pixels()) {
+            throw new IllegalArgumentException(spectrumFile + " has " + spectrum.pixels() + " pixels but " + apply
+                    + " was made for " + saved.pixels());
         }
-        StringBuilder text = new StringBuilder();
-        text.append("# ritzwerk-spectrum 1\n");
-        text.append("# axis: wavelength nm ").append(solution.medium().label()).append(" (pixel centres; from ")
-                .append(apply.getFileName()).append(")\n");
-        text.append("# source: ").append(spectrumFile.getFileName()).append('\n');
-        text.append("pixel,wavelength_nm,wavelength_sigma_nm,counts").append(spectrum.sigmas() != null
-                ? ",counts_sigma" : "").append('\n');
-        double[] counts = spectrum.counts();
-        for (int p = 0; p < n; p++) {
-            text.append(p).append(',').append(String.format(Locale.ROOT, "%.6f", solution.wavelengthAt(p))).append(',')
-                    .append(String.format(Locale.ROOT, "%.2g", solution.wavelengthSigmaAt(p))).append(',')
-                    .append(counts[p]);
-            if (spectrum.sigmas() != null) {
-                text.append(',').append(spectrum.sigmas()[p]);
-            }
-            text.append('\n');
-        }
+        String text = SpectrumFiles.withWavelengths(spectrum, saved.solution(), apply.getFileName().toString());
         if (out == null) {
             spec.commandLine().getOut().print(text);
             spec.commandLine().getOut().flush();
         } else {
-            Files.writeString(out, text, StandardCharsets.UTF_8);
+            OutputFiles.writeString(out, text);
         }
         return 0;
     }

@@ -7,19 +7,18 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.ritzwerk.constants.PhysicalConstants;
-import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.convert.SpectralArrays;
-import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
-import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.IdentificationSearch;
 import org.ritzwerk.engine.identify.Identifier;
 import org.ritzwerk.engine.identify.LineCatalog;
 import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.engine.identify.ShiftSearch;
 import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.engine.plasma.PlasmaEstimate;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.medium.Medium;
-import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.PeakFiles;
 import picocli.CommandLine.Command;
@@ -113,9 +112,6 @@ final class IdentifyCommand implements Callable<Integer> {
             description = "text (table and summary), csv or json (one object per peak). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
-    /** The physics of each --species multiplet, by species and label, for --plasma. */
-    private final java.util.Map<String, PlasmaDiagnostics.Multiplet> multiplets = new java.util.HashMap<>();
-
     @Override
     public Integer call() {
         if (excitationTemperature != null && !(excitationTemperature > 0 && excitationTemperature < 1e9)) {
@@ -131,44 +127,32 @@ final class IdentifyCommand implements Callable<Integer> {
         if (species.isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give candidate lines: --species (one-electron ions) and/or --lines");
         }
+        if (searchVelocity != null && (!(searchVelocity > 0) || searchVelocity >= PhysicalConstants.C / 1e4)) {
+            throw new IllegalArgumentException("--search-velocity must be positive and below c/10 (km/s), got "
+                    + searchVelocity);
+        }
+        if (searchOffset != null && (!(searchOffset > 0) || Double.isInfinite(searchOffset))) {
+            throw new IllegalArgumentException("--search-offset must be a positive width in nm, got " + searchOffset);
+        }
         PeakFiles.Peaks read = PeakFiles.read(peaksFile);
         double[] sigmas = read.allUncertain() ? read.uncertainties() : null;
         PeakList peaks = PeakList.of(read.positions(), sigmas, read.allIntense() ? read.intensities() : null,
                 read.unit(), read.medium());
-        Tolerance tol = tolerance(read.allUncertain());
-        double reachFactor = 1 + (searchVelocity == null ? 0 : searchVelocity * 1e3 / PhysicalConstants.C) + 1e-3
-                + (searchOffset == null ? 0 : searchOffset * 1e-9 / 100e-9);
-        LineCatalog catalog = catalog(peaks, reachFactor);
-        Identifier identifier = Identifier.of(tol);
-        ShiftSearch.Fit fit = null;
-        LineCatalog used = catalog;
+        IdentificationSearch search = IdentificationSearch.of(Identifier.of(tolerance(read.allUncertain())));
         if (searchVelocity != null) {
-            if (!(searchVelocity > 0) || searchVelocity >= PhysicalConstants.C / 1e4) {
-                throw new IllegalArgumentException("--search-velocity must be positive and below c/10 (km/s), got "
-                        + searchVelocity);
-            }
-            fit = ShiftSearch.redshift(identifier, peaks, catalog, searchVelocity * 1e3);
-            used = catalog.shifted(fit.value());
+            search = search.withVelocitySearch(searchVelocity * 1e3);
         }
-        ShiftSearch.Fit offsetFit = null;
         if (searchOffset != null) {
-            if (!(searchOffset > 0) || Double.isInfinite(searchOffset)) {
-                throw new IllegalArgumentException("--search-offset must be a positive width in nm, got " + searchOffset);
-            }
-            offsetFit = ShiftSearch.offset(identifier, peaks, used, searchOffset * 1e-9);
-            used = used.offset(offsetFit.value());
+            search = search.withOffsetSearch(searchOffset * 1e-9);
         }
-        Identification result = identifier.identify(peaks, used);
+        Candidates candidates = candidates(search.candidateWindow(peaks));
+        IdentificationSearch.Report report = search.run(peaks, candidates.catalog());
         if (plasma) {
-            if (resolvingPower != null && (instrumentFwhm != 0 || !(resolvingPower > 0)
-                    || Double.isInfinite(resolvingPower))) {
-                throw new IllegalArgumentException("give --instrument-fwhm or a positive --resolving-power, not both");
-            }
-            PlasmaDiagnostics.table(read, result, used, multiplets::get, instrumentFwhm, resolvingPower,
-                    excitationTemperature, spec.commandLine().getErr()).write(spec.commandLine().getOut(), format);
+            plasma(read, report, candidates);
             return 0;
         }
-        write(read, result, used, fit, offsetFit);
+        write(read, report.identification(), report.lines(), report.velocity().orElse(null),
+                report.offset().orElse(null));
         return 0;
     }
 
@@ -180,115 +164,65 @@ final class IdentifyCommand implements Callable<Integer> {
             }
             return Tolerance.kSigma(5);
         }
-        String text = tolerance.strip();
         try {
-            if (text.endsWith("sigma")) {
-                return Tolerance.kSigma(Double.parseDouble(text.substring(0, text.length() - 5).strip()));
-            }
-            if (text.endsWith("ppm")) {
-                return Tolerance.relative(Double.parseDouble(text.substring(0, text.length() - 3).strip()) * 1e-6);
-            }
-            if (text.startsWith("R=")) {
-                return Tolerance.relative(1 / Double.parseDouble(text.substring(2).strip()));
-            }
-            String[] parts = text.split("\\s+");
-            if (parts.length == 2) {
-                Unit unit = Unit.fromSymbol(parts[1]).orElse(null);
-                if (unit != null && unit.kind() == Kind.WAVELENGTH) {
-                    return Tolerance.absolute(unit.toSi(Double.parseDouble(parts[0])));
-                }
-                if (unit != null && unit.kind() != Kind.TEMPERATURE) {
-                    throw new IllegalArgumentException("--tolerance in " + unit.symbol() + " is not supported yet; "
-                            + "give a wavelength width (nm, pm as 0.001 nm, Angstrom), ppm or R=");
-                }
-            }
-        } catch (NumberFormatException e) {
-            // reported below
+            return Tolerance.parse(tolerance);
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException("--tolerance: " + e.getMessage(), e);
         }
-        throw new IllegalArgumentException("cannot read --tolerance '" + tolerance + "'; examples: \"5 sigma\", "
-                + "\"0.02 nm\", \"20 ppm\", \"R=20000\"");
     }
 
-    private LineCatalog catalog(PeakList peaks, double reachFactor) {
-        double lo = Double.POSITIVE_INFINITY;
-        double hi = 0;
-        for (int i = 0; i < peaks.size(); i++) {
-            lo = Math.min(lo, peaks.wavelength(i));
-            hi = Math.max(hi, peaks.wavelength(i));
+    private Candidates candidates(double[] window) {
+        Candidates.Builder builder = Candidates.inWindow(window[0], window[1]);
+        if (excitationTemperature != null) {
+            builder.excitationTemperature(excitationTemperature);
         }
-        lo /= reachFactor;
-        hi *= reachFactor;
-        LineCatalog.Builder builder = LineCatalog.builder();
-        int count = 0;
         if (!species.isEmpty()) {
             Ions.Atoms atoms = Ions.atoms(species, model);
             for (AlkaliAtom atom : atoms.alkalis()) {
-                // Alkali lines between the model's levels (l <= 3), weighted by g A.
-                Progress progress = Progress.on(spec.commandLine().getErr(), "identify: " + atom.species().notation()
-                        + " lines");
-                for (AlkaliLines.Line line : AlkaliLines.window(atom, PhysicalConstants.C / hi,
-                        PhysicalConstants.C / lo, nMax, 3, 0, progress)) {
-                    builder.add(atom.species(), PhysicalConstants.C / line.frequency(), 0,
-                            (line.upper().twoJ() + 1) * line.einsteinA(),
-                            line.upper().notation() + " - " + line.lower().notation());
-                    count++;
-                }
+                builder.alkali(atom, nMax, Progress.on(spec.commandLine().getErr(), "identify: "
+                        + atom.species().notation() + " lines"));
             }
             for (Ions.Ion ion : atoms.ions()) {
-                HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
-                double fromHz = PhysicalConstants.C / hi;
-                double toHz = PhysicalConstants.C / lo;
-                LineTable table = components ? generator.components(nMax, fromHz, toHz)
-                        : generator.multiplets(nMax, fromHz, toHz);
-                double ground = ion.model().energy(1, 0, 1);
-                for (int i = 0; i < table.size(); i++) {
-                    double strength = table.upperWeight(i) * table.einsteinA(i);
-                    if (excitationTemperature != null) {
-                        int n = table.upperN(i);
-                        double upper = table.upperL(i) < 0 ? ion.model().energy(n, 0, 1)
-                                : ion.model().energy(n, table.upperL(i), table.upperTwoJ(i));
-                        strength *= Math.exp(-(upper - ground) / (PhysicalConstants.K * excitationTemperature));
-                    }
-                    String label = (components ? table.upperLabel(i) + " - " + table.lowerLabel(i) + " " : "")
-                            + table.seriesName(i);
-                    double vacuum = PhysicalConstants.C / table.frequency(i);
-                    if (components) {
-                        builder.add(ion.species(), vacuum, 0, strength, label);
-                    } else {
-                        int n = table.upperN(i);
-                        multiplets.put(ion.species().notation() + " " + label, new PlasmaDiagnostics.Multiplet(ion.model(), n,
-                                table.lowerN(i), ion.model().energy(n, 0, 1) - ground, table.upperWeight(i),
-                                table.einsteinA(i), table.frequency(i)));
-                        // A multiplet blends its fine-structure components: it may explain each of
-                        // them where the instrument half-resolves them.
-                        builder.addBlend(ion.species(), vacuum, 0, strength, label);
-                    }
-                    count++;
-                }
+                builder.hydrogenLike(ion.species(), ion.model(), nMax, components);
             }
         }
         for (String set : lineSets) {
-            LineList list = LineSets.load(set, "--lines");
-            double[] vacuum = LineSets.wavelengths(list, Unit.METRE, Medium.vacuum());
-            for (int i = 0; i < list.size(); i++) {
-                if (vacuum[i] < lo || vacuum[i] > hi) {
-                    continue;
-                }
-                double sigma = list.uncertainty(i).isPresent()
-                        ? Math.abs(vacuum[i] / list.position(i)) * list.uncertainty(i).getAsDouble() : 0;
-                double strength = list.intensity(i).isPresent() ? list.intensity(i).getAsDouble()
-                        : list.einsteinA(i).orElse(Double.NaN);
-                String label = list.lower(i) != null && list.upper(i) != null ? list.upper(i) + " - " + list.lower(i)
-                        : list.info().id() + " " + list.position(i) + " " + list.unit().symbol();
-                builder.add(list.species(i), vacuum[i], sigma, strength, label);
-                count++;
-            }
-        }
-        if (count == 0) {
-            throw new IllegalArgumentException("no candidate line lies in the range of the peaks ("
-                    + String.format(Locale.ROOT, "%.6g to %.6g nm in vacuum", lo * 1e9, hi * 1e9) + ")");
+            builder.lineList(LineSets.load(set, "--lines"));
         }
         return builder.build();
+    }
+
+    private void plasma(PeakFiles.Peaks read, IdentificationSearch.Report report, Candidates candidates) {
+        if (resolvingPower != null && (instrumentFwhm != 0 || !(resolvingPower > 0)
+                || Double.isInfinite(resolvingPower))) {
+            throw new IllegalArgumentException("give --instrument-fwhm or a positive --resolving-power, not both");
+        }
+        PlasmaEstimate estimate = resolvingPower == null ? PlasmaEstimate.defaults().withInstrumentFwhm(instrumentFwhm)
+                : PlasmaEstimate.defaults().withResolvingPower(resolvingPower);
+        if (excitationTemperature != null) {
+            estimate = estimate.withTemperature(excitationTemperature);
+        }
+        List<PlasmaEstimate.Row> rows = estimate.estimate(new PlasmaEstimate.Peaks(read.positions(), read.unit(),
+                read.medium(), read.intensities(), read.widths()), report.identification(), report.lines(), candidates);
+        Table table = new Table(List.of(
+                Table.Column.text("species", "species"),
+                Table.Column.text("quantity", "quantity"),
+                Table.Column.number("value", "value", "%.5g"),
+                Table.Column.number("uncertainty", "+-", "%.2g"),
+                Table.Column.text("unit", "unit"),
+                Table.Column.text("lines", "lines"),
+                Table.Column.text("note", "note")));
+        for (PlasmaEstimate.Row row : rows) {
+            table.add(row.species().notation(), row.quantity().id(),
+                    row.value().isPresent() ? row.value().getAsDouble() : null,
+                    row.uncertainty().isPresent() ? row.uncertainty().getAsDouble() : null, row.quantity().unit(),
+                    row.lines(), row.note());
+        }
+        if (rows.isEmpty()) {
+            spec.commandLine().getErr().println("identify: no matched multiplet of a --species line; nothing to diagnose");
+            spec.commandLine().getErr().flush();
+        }
+        table.write(spec.commandLine().getOut(), format);
     }
 
     private void write(PeakFiles.Peaks read, Identification result, LineCatalog lines, ShiftSearch.Fit fit,

@@ -8,6 +8,7 @@ import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
@@ -200,10 +201,10 @@ final class LinesCommand implements Callable<Integer> {
         AlkaliAtom atom = atoms.alkalis().get(0);
         Table table;
         if (transition != null) {
-            State[] pair = AlkaliLines.pair(transition);
-            table = AlkaliLines.transition(atom, pair[0], pair[1], temperature);
+            State[] pair = AlkaliTables.pair(transition);
+            table = AlkaliTables.transition(atom, pair[0], pair[1], temperature);
         } else {
-            table = AlkaliLines.ladder(atom, AlkaliLines.ladder(ladder));
+            table = AlkaliTables.ladder(atom, AlkaliTables.ladder(ladder));
         }
         table.write(spec.commandLine().getOut(), format);
         return 0;

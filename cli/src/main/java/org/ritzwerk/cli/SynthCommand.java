@@ -17,19 +17,14 @@ import java.util.TreeMap;
 import java.util.concurrent.Callable;
 import java.util.function.DoubleUnaryOperator;
 import org.ritzwerk.atom.Elements;
-import org.ritzwerk.atom.Species;
-import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.RydbergException;
-import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.engine.synth.Continuum;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
-import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.NuclearData;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -217,7 +212,12 @@ final class SynthCommand implements Callable<Integer> {
             builder.hydrogenLike(ion.species(), ion.model(), abundance.getOrDefault(ion.species().z(), 1.0));
         }
         for (AlkaliAtom atom : atoms.alkalis()) {
-            addAlkali(builder, atom, abundance.getOrDefault(atom.species().z(), 1.0), grid);
+            builder.alkali(atom, abundance.getOrDefault(atom.species().z(), 1.0),
+                    NuclearData.builtIn().nucleus(atom.species()));
+            if (electronDensity != null) {
+                spec.commandLine().getErr().println("note: " + atom.species().notation() + ": no ionisation balance for"
+                        + " alkali atoms; --abundance counts its neutral atoms");
+            }
         }
         for (int z : abundance.keySet()) {
             if (resolved.stream().noneMatch(ion -> ion.species().z() == z)
@@ -226,7 +226,14 @@ final class SynthCommand implements Callable<Integer> {
                         + ", which is not among --species");
             }
         }
-        addLineLists(builder, resolved, grid);
+        for (String set : lineSets) {
+            LineList list = LineSets.load(set, "--lines");
+            try {
+                builder.lineList(list, NuclearData.builtIn()::nucleus);
+            } catch (IllegalArgumentException e) {
+                throw new IllegalArgumentException("--lines " + set + ": " + e.getMessage(), e);
+            }
+        }
         addContinuum(builder, grid);
         if (!noNoise) {
             option("--read-noise", () -> builder.noise(readNoise, seed));
@@ -306,104 +313,6 @@ final class SynthCommand implements Callable<Integer> {
             case "log" -> PixelGrid.logarithmic(lo, hi, pixels);
             default -> throw new IllegalArgumentException("--grid must be linear or log, got '" + gridKind + "'");
         };
-    }
-
-    /**
-     * An alkali atom's lines between its levels (n <= --n-max, l <= 3) as a line list, each with
-     * the photon rate abundance (2j_u + 1) A exp(-E_u / kT) / U, U summed over the same levels:
-     * Boltzmann's law as for the one-electron ions, with no ionisation balance.
-     */
-    private void addAlkali(Scene.Builder builder, AlkaliAtom atom, double abundance, PixelGrid grid) {
-        double beta = Math.abs(velocity) * 1e3 / PhysicalConstants.C;
-        double lowHz = PhysicalConstants.C / (grid.edge(grid.pixels()) * 1.02e-9 * (1 + beta));
-        double highHz = PhysicalConstants.C / (grid.edge(0) * 0.98e-9 * (1 - beta));
-        double kT = PhysicalConstants.K * temperature;
-        double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
-        double partition = 0;
-        for (int n = 1; n <= nMax; n++) {
-            for (int l = 0; l <= Math.min(3, n - 1); l++) {
-                for (int twoJ = Math.max(1, 2 * l - 1); twoJ <= 2 * l + 1; twoJ += 2) {
-                    if (n < atom.lowestN(l)) {
-                        continue;
-                    }
-                    try {
-                        partition += (twoJ + 1) * Math.exp(-atom.energyPerCm(State.of(n, l, twoJ)) * hcPerCm / kT);
-                    } catch (RydbergException e) {
-                        // no energy for it: not in the model, not in the sum
-                    }
-                }
-            }
-        }
-        List<AlkaliLines.Line> lines = AlkaliLines.window(atom, lowHz, highHz, nMax, 3, 0,
-                Progress.on(spec.commandLine().getErr(), "synth: " + atom.species().notation() + " lines"));
-        double[] nm = new double[lines.size()];
-        double[] photons = new double[lines.size()];
-        String[] labels = new String[lines.size()];
-        for (int i = 0; i < lines.size(); i++) {
-            AlkaliLines.Line line = lines.get(i);
-            nm[i] = PhysicalConstants.C / line.frequency() * 1e9;
-            photons[i] = abundance * (line.upper().twoJ() + 1) * line.einsteinA()
-                    * Math.exp(-atom.energyPerCm(line.upper()) * hcPerCm / kT) / partition;
-            labels[i] = atom.species().notation() + " " + line.upper().notation() + " - " + line.lower().notation();
-        }
-        if (electronDensity != null) {
-            spec.commandLine().getErr().println("note: " + atom.species().notation() + ": no ionisation balance for"
-                    + " alkali atoms; --abundance counts its neutral atoms");
-        }
-        double mass = NuclearData.builtIn().nucleus(atom.species()).massKg()
-                + atom.species().z() * PhysicalConstants.ELECTRON_MASS.value();
-        builder.lineList(atom.species().notation(), nm, photons, mass, labels);
-    }
-
-    /** Adds each --lines set, one emitter per species in it, with its relative intensities. */
-    private void addLineLists(Scene.Builder builder, List<Ions.Ion> resolved, PixelGrid grid) throws IOException {
-        if (lineSets.isEmpty()) {
-            return;
-        }
-        // The strongest ion line's photon rate, to put the lists on a comparable scale.
-        double ionScale = 0;
-        if (!resolved.isEmpty()) {
-            Scene.Builder probe = Scene.builder(grid).medium(AxisMedium.of(medium)).nMax(nMax);
-            option("--temperature", () -> probe.temperature(temperature));
-            for (Ions.Ion ion : resolved) {
-                probe.hydrogenLike(ion.species(), ion.model(), 1);
-            }
-            Scene.Lines ionLines = probe.build().lines();
-            for (int i = 0; i < ionLines.size(); i++) {
-                ionScale = Math.max(ionScale, ionLines.photons(i));
-            }
-        }
-        for (String set : lineSets) {
-            LineList list = LineSets.load(set, "--lines");
-            double[] vacuum = LineSets.wavelengths(list, Unit.NANOMETRE, Medium.vacuum());
-            double strongest = 0;
-            for (int i = 0; i < list.size(); i++) {
-                strongest = Math.max(strongest, list.intensity(i).orElse(0));
-            }
-            if (strongest == 0) {
-                throw new IllegalArgumentException("--lines " + set + " gives no line an intensity; synth needs them");
-            }
-            double scale = ionScale > 0 ? ionScale / strongest : 1;
-            for (Species species : list.coveredSpecies()) {
-                double[] nm = new double[list.size()];
-                double[] photons = new double[list.size()];
-                String[] labels = new String[list.size()];
-                int n = 0;
-                for (int i = 0; i < list.size(); i++) {
-                    if (list.species(i).equals(species) && list.intensity(i).isPresent()) {
-                        nm[n] = vacuum[i];
-                        photons[n] = list.intensity(i).getAsDouble() * scale;
-                        labels[n] = species.notation() + " " + list.position(i) + " "
-                                + list.unit().symbol() + " " + list.medium().label();
-                        n++;
-                    }
-                }
-                double mass = NuclearData.builtIn().nucleus(species).massKg()
-                        + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
-                builder.lineList(species.notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n), mass,
-                        Arrays.copyOf(labels, n));
-            }
-        }
     }
 
     /** Runs a builder step, naming the option when the engine refuses its value. */

@@ -1,5 +1,6 @@
 package org.ritzwerk.cli;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -10,8 +11,16 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.calibrate.Calibration;
+import org.ritzwerk.engine.calibrate.CalibrationProblem;
+import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.engine.calibrate.LampSet;
+import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.CalibrationFiles;
+import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.SpectrumFiles;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 
@@ -60,6 +69,28 @@ class CalibrateCommandTest {
         CliTest.Run run = CliTest.run(args.toArray(new String[0]));
         assertEquals(0, run.code(), run.err());
         return spectrum;
+    }
+
+    @Test
+    void theCommandGivesWhatTheLibraryJobGives(@TempDir Path dir) throws IOException {
+        Path spectrum = lampSpectrum(dir, 12, true);
+        Path calibration = dir.resolve("calibration.json");
+        CliTest.Run run = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--tolerance", "2.5",
+                "--out", calibration.toString());
+        assertEquals(0, run.code(), run.err());
+        DispersionSolution fromCommand = CalibrationFiles.read(calibration).solution();
+
+        SpectrumFiles.Spectrum counts = SpectrumFiles.read(spectrum);
+        DataRegistry registry = DataRegistry.builtIn();
+        LampSet neon = LampSet.of(List.of(registry.lampLines(Species.parse("Ne I"))), Medium.air());
+        Calibration job = Calibrator.defaults().withTolerance(2.5)
+                .calibrate(CalibrationProblem.builder(counts.counts()).lamp(neon).build());
+        assertArrayEquals(job.solution().scaledCoefficients(), fromCommand.scaledCoefficients(), 0.0,
+                "the command is the job: same coefficients bit for bit");
+        for (int i = 0; i < fromCommand.covariance().length; i++) {
+            assertArrayEquals(job.solution().covariance()[i], fromCommand.covariance()[i], 0.0);
+        }
+        assertTrue(run.out().contains(job.solution().usedCount() + " lines used"), run.out());
     }
 
     @Test

@@ -11,6 +11,18 @@ import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.identify.Candidates;
+import org.ritzwerk.engine.identify.IdentificationSearch;
+import org.ritzwerk.engine.identify.Identifier;
+import org.ritzwerk.engine.identify.LineCatalog;
+import org.ritzwerk.engine.identify.PeakList;
+import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.NuclearData;
+import org.ritzwerk.refdata.PeakFiles;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 
@@ -160,5 +172,47 @@ class IdentifyCommandTest {
                 .contains("--plasma works on n -> n' multiplets"));
         assertTrue(CliTest.run("identify", file.toString(), "--species", "H I", "--plasma", "--resolving-power", "5000",
                 "--instrument-fwhm", "0.1").err().contains("not both"));
+    }
+
+    @Test
+    void theCommandGivesWhatTheLibraryJobGives(@TempDir Path dir) throws IOException {
+        // Invented peaks: four Balmer multiplets of the engine moved by 25 km/s, in air, and a stray peak.
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(NuclearData.builtIn().nucleus(Species.parse("H I")),
+                Tier.QED);
+        LineCatalog rest = Candidates.inWindow(400e-9, 700e-9).hydrogenLike(Species.parse("H I"), hydrogen, 6, false)
+                .build().catalog();
+        StringBuilder rows = new StringBuilder("position,uncertainty\n");
+        for (int j = 0; j < rest.size(); j++) {
+            double air = Medium.air().fromVacuum(rest.wavelength(j) * (1 + 25e3 / 299_792_458.0)) * 1e9;
+            rows.append(String.format(java.util.Locale.ROOT, "%.6f,0.001%n", air));
+        }
+        rows.append("600.000000,0.001\n");
+        Path file = dir.resolve("moving.csv");
+        Files.writeString(file, HEADER + rows, StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", file.toString(), "--species", "H I", "--search-velocity", "100",
+                "--format", "json");
+        assertEquals(0, run.code(), run.err());
+
+        PeakFiles.Peaks read = PeakFiles.read(file);
+        PeakList peaks = PeakList.of(read.positions(), read.uncertainties(), null, read.unit(), read.medium());
+        IdentificationSearch search = IdentificationSearch.of(Identifier.of(Tolerance.parse("5 sigma")))
+                .withVelocitySearch(100e3);
+        double[] window = search.candidateWindow(peaks);
+        IdentificationSearch.Report report = search.run(peaks, Candidates.inWindow(window[0], window[1])
+                .hydrogenLike(Species.parse("H I"), hydrogen, 30, false).build().catalog());
+        JsonMapper json = JsonMapper.builder().build();
+        String[] lines = run.out().strip().split("\\R");
+        assertEquals(read.size(), lines.length);
+        for (int i = 0; i < read.size(); i++) {
+            JsonNode row = json.readTree(lines[i]);
+            int j = report.identification().line(i);
+            assertEquals(j < 0 ? "unexplained" : "matched", row.get("status").asString(), lines[i]);
+            if (j >= 0) {
+                assertEquals(report.lines().label(j), row.get("transition").asString());
+            }
+        }
+        String velocity = String.format(java.util.Locale.ROOT, "velocity %.3f",
+                report.velocity().orElseThrow().velocity() / 1e3);
+        assertTrue(run.err().contains(velocity), velocity + " in " + run.err());
     }
 }

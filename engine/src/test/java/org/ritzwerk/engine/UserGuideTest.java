@@ -8,13 +8,6 @@ import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
-import org.ritzwerk.engine.calibrate.DispersionFit;
-import org.ritzwerk.engine.calibrate.DispersionSolution;
-import org.ritzwerk.engine.calibrate.LampLines;
-import org.ritzwerk.engine.calibrate.LampMatch;
-import org.ritzwerk.engine.calibrate.LampMatcher;
-import org.ritzwerk.engine.calibrate.PeakFinder;
-import org.ritzwerk.engine.calibrate.Peaks;
 import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
@@ -174,34 +167,5 @@ class UserGuideTest {
         assertEquals(1, hydrogenStages[0] + hydrogenStages[1], 1e-15);
         // 1e23 (1.2 / 4.8)^(1 / 0.68116) = 1.31e22 m^-3 (Gigosos et al. 2003 fit, by hand).
         assertEquals(1.31e22, ne, 0.01e22);
-    }
-
-    @Test
-    void wavelengthCalibration() {
-        // Ne I air wavelengths and relative intensities from the built-in set lamp-ne-i
-        // (Sansonetti and Martin 2005), seen by an invented 2048-pixel spectrometer.
-        double[] neonAirNm = {585.24879, 588.18952, 602.99969, 607.43377, 614.30626, 616.35939, 621.72812,
-            626.64950, 633.44278, 638.29917, 640.2248, 650.65281};
-        double[] neonIntensities = {200, 100, 100, 100, 100, 100, 100, 100, 100, 100, 200, 150};
-        PixelGrid detector = PixelGrid.dispersion(new double[] {580, 0.035, -1e-6}, 2048);
-        double[] expected = new double[2048];
-        java.util.Arrays.fill(expected, 50);
-        double[] flux = neonIntensities.clone();
-        for (int i = 0; i < flux.length; i++) {
-            flux[i] *= 2;
-        }
-        new LineRenderer(detector, Instrument.ofFwhm(0.08), 20).render(neonAirNm, flux, new double[12],
-                new double[12], expected);
-        double[] countsPerPixel = new double[2048];
-        Noise.apply(expected, 3, 9L, countsPerPixel);
-
-        Peaks peaks = PeakFinder.defaults().withThreshold(5).find(countsPerPixel);           // or find(counts, sigmas)
-        LampLines neon = LampLines.of(neonAirNm, neonIntensities, null, Medium.air());
-        LampMatch match = LampMatcher.defaults().match(peaks, neon);                         // or withPrior(...)
-        DispersionSolution solution = match.fit(DispersionFit.automatic(3));
-        solution.wavelengthAt(1024.0); solution.wavelengthSigmaAt(1024.0); solution.rmsPixels();
-
-        double truth = 580 + 0.035 * 1024 - 1e-6 * 1024 * 1024;
-        assertEquals(truth, solution.wavelengthAt(1024.0), 0.05 * 0.033);   // within 0.05 pixel
     }
 }

@@ -66,7 +66,7 @@ public final class CalibrationFiles {
      */
     public static void write(Path file, DispersionSolution solution, int pixels, String description,
             List<String> lineLabels) throws IOException {
-        Files.writeString(file, toJson(solution, pixels, description, lineLabels), StandardCharsets.UTF_8);
+        OutputFiles.writeString(file, toJson(solution, pixels, description, lineLabels));
     }
 
     /**

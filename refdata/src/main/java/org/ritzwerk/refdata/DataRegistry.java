@@ -15,6 +15,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
 
@@ -175,6 +176,27 @@ public final class DataRegistry {
             }
         }
         return matches;
+    }
+
+    /**
+     * @param species a lamp's species, e.g. {@code Ne I}
+     * @return the lamp line set of highest precedence for it (a user file before a third-party
+     *         provider before the built-in set)
+     * @throws ReferenceDataException ({@code unknown-data-set}) when no lamp set covers the species
+     */
+    public LineList lampLines(Species species) {
+        List<Listing> found = find(DataKind.LAMP_LINES, species);
+        if (found.isEmpty()) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no lamp set for "
+                    + species.notation() + "; 'ritzwerk data' lists the sets available");
+        }
+        String id = found.get(0).info().id();
+        DataSet set = load(id);
+        if (!(set instanceof LineList)) {
+            throw new ReferenceDataException(ReferenceDataException.PROVIDER_FAILED, "lamp set '" + id
+                    + "' is not a line list");
+        }
+        return (LineList) set;
     }
 
     /**

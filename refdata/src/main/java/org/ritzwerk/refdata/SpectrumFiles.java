@@ -7,7 +7,9 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
+import org.ritzwerk.engine.calibrate.DispersionSolution;
 import tools.jackson.core.JacksonException;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
@@ -61,6 +63,43 @@ public final class SpectrumFiles {
         public int pixels() {
             return counts.length;
         }
+    }
+
+    /**
+     * A spectrum with the wavelengths of a dispersion solution, as text: a {@code ritzwerk-spectrum 1}
+     * CSV with columns {@code pixel,wavelength_nm,wavelength_sigma_nm,counts} (and
+     * {@code counts_sigma} when the spectrum has them). The wavelength of pixel p is the solution at
+     * the pixel's centre p; its standard uncertainty is left empty where the solution has none.
+     *
+     * @param spectrum     the spectrum (counts per pixel)
+     * @param solution     the solution, in its medium
+     * @param solutionName where the solution came from (a file name), written in the header
+     * @return the file's text
+     */
+    public static String withWavelengths(Spectrum spectrum, DispersionSolution solution, String solutionName) {
+        int n = spectrum.pixels();
+        double[] nm = solution.pixelCentreWavelengths(n);
+        double[] sigma = solution.pixelCentreWavelengthSigmas(n);
+        StringBuilder text = new StringBuilder();
+        text.append("# ritzwerk-spectrum 1\n");
+        text.append("# axis: wavelength nm ").append(solution.medium().label()).append(" (pixel centres; from ")
+                .append(solutionName).append(")\n");
+        text.append("# source: ").append(spectrum.source()).append('\n');
+        text.append("pixel,wavelength_nm,wavelength_sigma_nm,counts").append(spectrum.sigmas() != null
+                ? ",counts_sigma" : "").append('\n');
+        double[] counts = spectrum.counts();
+        for (int p = 0; p < n; p++) {
+            text.append(p).append(',').append(String.format(Locale.ROOT, "%.6f", nm[p])).append(',');
+            if (!Double.isNaN(sigma[p])) {
+                text.append(String.format(Locale.ROOT, "%.2g", sigma[p]));
+            }
+            text.append(',').append(counts[p]);
+            if (spectrum.sigmas() != null) {
+                text.append(',').append(spectrum.sigmas()[p]);
+            }
+            text.append('\n');
+        }
+        return text.toString();
     }
 
     /**

@@ -314,6 +314,22 @@ public final class DispersionSolution {
 
     /**
      * @param pixels number of detector pixels, at least 1
+     * @return the standard uncertainty in nm of each pixel centre's wavelength 0 .. pixels - 1
+     *         (as {@link #wavelengthSigmaAt})
+     */
+    public double[] pixelCentreWavelengthSigmas(int pixels) {
+        if (pixels < 1) {
+            throw new IllegalArgumentException("a detector needs at least one pixel, got " + pixels);
+        }
+        double[] out = new double[pixels];
+        for (int i = 0; i < pixels; i++) {
+            out[i] = wavelengthSigmaAt(i);
+        }
+        return out;
+    }
+
+    /**
+     * @param pixels number of detector pixels, at least 1
      * @return the wavelengths in nm of the pixels + 1 edges at -1/2, 1/2, ..., pixels - 1/2
      */
     public double[] pixelEdgeWavelengths(int pixels) {

@@ -7,6 +7,23 @@
  * pixel-to-wavelength solution ({@link org.ritzwerk.engine.calibrate.DispersionFit} -&gt;
  * {@link org.ritzwerk.engine.calibrate.DispersionSolution}) that can be applied to other spectra.
  *
+ * <p>The whole job, as the command line's {@code calibrate} runs it, is a
+ * {@link org.ritzwerk.engine.calibrate.CalibrationProblem} (exposure, lamp lines as a
+ * {@link org.ritzwerk.engine.calibrate.LampSet}, prior) solved by an immutable
+ * {@link org.ritzwerk.engine.calibrate.Calibrator} into a
+ * {@link org.ritzwerk.engine.calibrate.Calibration}:
+ *
+ * <pre>{@code
+ * LampSet neon = LampSet.of(List.of(neonLineList), Medium.air());
+ * Calibration c = Calibrator.defaults().withSaturationLevel(65535)
+ *         .calibrate(CalibrationProblem.builder(counts).lamp(neon)
+ *                 .prior(new LampMatcher.Prior(340, 910, 0.10, 0.18)).build());
+ * double nm = c.solution().wavelengthAt(1234.5);
+ * double sigmaNm = c.solution().wavelengthSigmaAt(1234.5);
+ * }</pre>
+ *
+ * <p>The steps can also be called one by one:
+ *
  * <pre>{@code
  * Peaks peaks = PeakFinder.defaults().withSaturationLevel(65535).find(counts);
  * LampLines neon = LampLines.of(nm, relativeIntensity, null, Medium.air());
@@ -14,8 +31,6 @@
  *         .withPrior(new LampMatcher.Prior(340, 910, 0.10, 0.18))
  *         .match(peaks, neon);
  * DispersionSolution solution = match.fit(DispersionFit.automatic(5));
- * double nm = solution.wavelengthAt(1234.5);
- * double sigmaNm = solution.wavelengthSigmaAt(1234.5);
  * }</pre>
  *
  * <p><b>Units.</b> Pixel positions are 0-based, pixel i covering [i - 1/2, i + 1/2) with its

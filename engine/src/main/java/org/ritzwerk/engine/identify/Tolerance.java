@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.identify;
 
 import java.util.Locale;
+import org.ritzwerk.quantity.Unit;
 
 /**
  * How far a peak may lie from a line and still be matched to it, in vacuum wavelength:
@@ -53,6 +54,46 @@ public record Tolerance(Kind kind, double value) {
     /** @param k the number of combined standard uncertainties @return the tolerance */
     public static Tolerance kSigma(double k) {
         return new Tolerance(Kind.K_SIGMA, k);
+    }
+
+    /**
+     * Reads a tolerance as people write it: {@code "5 sigma"} (k combined uncertainties), a
+     * wavelength half-width with its unit ({@code "0.02 nm"}, {@code "0.5 Å"}, {@code "1e-11 m"}),
+     * {@code "20 ppm"}, or a resolving power {@code "R=20000"} (relative 1/R).
+     *
+     * @param text the tolerance
+     * @return the tolerance
+     * @throws IllegalArgumentException naming the text and giving examples when it cannot be read,
+     *         or when its value is not finite and positive
+     */
+    public static Tolerance parse(String text) {
+        String t = text.strip();
+        try {
+            if (t.endsWith("sigma")) {
+                return kSigma(Double.parseDouble(t.substring(0, t.length() - 5).strip()));
+            }
+            if (t.endsWith("ppm")) {
+                return relative(Double.parseDouble(t.substring(0, t.length() - 3).strip()) * 1e-6);
+            }
+            if (t.startsWith("R=")) {
+                return relative(1 / Double.parseDouble(t.substring(2).strip()));
+            }
+            String[] parts = t.split("\\s+");
+            if (parts.length == 2) {
+                Unit unit = Unit.fromSymbol(parts[1]).orElse(null);
+                if (unit != null && unit.kind() == org.ritzwerk.quantity.Kind.WAVELENGTH) {
+                    return absolute(unit.toSi(Double.parseDouble(parts[0])));
+                }
+                if (unit != null && unit.kind() != org.ritzwerk.quantity.Kind.TEMPERATURE) {
+                    throw new IllegalArgumentException("a tolerance in " + unit.symbol() + " is not supported yet; "
+                            + "give a wavelength width (nm, pm as 0.001 nm, Angstrom), ppm or R=");
+                }
+            }
+        } catch (NumberFormatException e) {
+            // reported below
+        }
+        throw new IllegalArgumentException("cannot read tolerance '" + text + "'; examples: \"5 sigma\", "
+                + "\"0.02 nm\", \"20 ppm\", \"R=20000\"");
     }
 
     /** @return the half-width at a wavelength for given standard uncertainties, metres */

@@ -3,18 +3,28 @@ package org.ritzwerk.engine.synth;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Objects;
 import java.util.function.DoubleConsumer;
 import java.util.function.DoubleUnaryOperator;
+import java.util.function.Function;
+import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.plasma.IonisationBalance;
 import org.ritzwerk.engine.profile.BalmerStark;
 import org.ritzwerk.engine.profile.Broadening;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.AlkaliLines;
+import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
+import org.ritzwerk.quantity.Unit;
 
 /**
  * A described scene (emitters, plasma conditions, instrument, pixel grid) that renders into a
@@ -28,8 +38,11 @@ import org.ritzwerk.medium.MediumException;
  * nMax (Boltzmann's law, optically thin). N is the emitter's abundance times, when an electron
  * density is given and the element is hydrogen or helium, its stage's Saha fraction
  * ({@link IonisationBalance}); for other elements N is the abundance of that ion itself.</li>
- * <li>Line lists ({@link Builder#lineList}): positions and photon rates as given (a lamp's
- * relative intensities, say), broadened and shifted like the rest.</li>
+ * <li>Line lists ({@link Builder#lineList}): positions and photon rates as given, or a
+ * {@link LineList}'s relative intensities (a lamp set, say) scaled to the strongest ion line;
+ * broadened and shifted like the rest.</li>
+ * <li>Neutral alkali atoms ({@link Builder#alkali}): their lines between the quantum-defect
+ * model's levels, populated by Boltzmann's law over the same levels.</li>
  * <li>Widths: Doppler (Gaussian, from the temperature and the emitter's mass), the
  * instrument's Gaussian response, and a Lorentzian that is the sum of a collisional FWHM given
  * by the caller, natural widths when asked ({@link Builder#naturalWidths}: each shell's total
@@ -213,7 +226,7 @@ public final class Scene {
     public static final class Builder {
         private final PixelGrid grid;
         private final List<HydrogenLikeEmitter> ions = new ArrayList<>();
-        private final List<ListEmitter> lists = new ArrayList<>();
+        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter or RelativeList
         private double temperature = 10_000;
         private double electronDensity = Double.NaN;
         private double velocity;
@@ -300,6 +313,55 @@ public final class Scene {
             }
             positive(label + " emitter mass", emitterMassKg);
             lists.add(new ListEmitter(label, vacuumNm.clone(), photons.clone(), emitterMassKg, lineLabels.clone()));
+            return this;
+        }
+
+        /**
+         * A neutral alkali atom: its E1 lines between the quantum-defect model's levels (n &lt;= nMax,
+         * l &lt;= 3; {@link AlkaliLines}) near the grid, each with the photon rate
+         * abundance (2 j_u + 1) A exp(-E_u / kT) / U, U summed over the same levels (Boltzmann's
+         * law, optically thin, as for the one-electron ions; no ionisation balance). Labelled
+         * {@code Rb-87 I 5p 2P3/2 - 5s 2S1/2}.
+         *
+         * @param atom      the atom
+         * @param abundance its number (or number density) of neutral atoms, positive
+         * @param nucleus   its nucleus, for the atom's mass (nucleus plus Z electrons) in the Doppler width
+         * @return this builder
+         */
+        public Builder alkali(AlkaliAtom atom, double abundance, Nucleus nucleus) {
+            Objects.requireNonNull(atom, "atom");
+            Objects.requireNonNull(nucleus, "nucleus");
+            positive("abundance of " + atom.species().notation(), abundance);
+            lists.add(new AlkaliEmitter(atom, abundance,
+                    nucleus.massKg() + atom.species().z() * PhysicalConstants.ELECTRON_MASS.value()));
+            return this;
+        }
+
+        /**
+         * A line list with relative intensities (a lamp set, say): one emitter per species in it,
+         * lines without an intensity left out. When the scene has one-electron ions the intensities
+         * are scaled so the list's strongest line has the photon rate of the strongest ion line (at
+         * abundance 1, no ionisation balance), so both show; otherwise they are used as given.
+         * Labelled {@code Ne I 640.2248 nm air}.
+         *
+         * @param list   the list, in any wavelength unit and medium
+         * @param nuclei the nucleus of each species, for its mass (nucleus plus bound electrons) in
+         *               the Doppler width
+         * @return this builder
+         * @throws IllegalArgumentException when no line of the list has an intensity
+         */
+        public Builder lineList(LineList list, Function<Species, Nucleus> nuclei) {
+            Objects.requireNonNull(list, "list");
+            Objects.requireNonNull(nuclei, "nuclei");
+            boolean any = false;
+            for (int i = 0; i < list.size(); i++) {
+                any |= list.intensity(i).orElse(0) > 0;
+            }
+            if (!any) {
+                throw new IllegalArgumentException("line list " + list.info().id()
+                        + " gives no line an intensity; a scene needs them");
+            }
+            lists.add(new RelativeList(list, nuclei));
             return this;
         }
 
@@ -444,7 +506,7 @@ public final class Scene {
             for (HydrogenLikeEmitter ion : ions) {
                 addIon(ion, out, doppler, Math.max(lo - reach, lo / 2), hi + reach, stark, notes);
             }
-            for (ListEmitter list : lists) {
+            for (ListEmitter list : resolvedLists()) {
                 for (int i = 0; i < list.vacuumNm.length; i++) {
                     double vacuumShifted = list.vacuumNm[i] * doppler;
                     if (vacuumShifted < lo - reach || vacuumShifted > (hi + reach) * 1.001) {
@@ -464,6 +526,114 @@ public final class Scene {
                         + "and were left out; only their far wings would have reached the grid");
             }
             return out.lines();
+        }
+
+        /** The line lists as fixed photon rates, in the order they were added. */
+        private List<ListEmitter> resolvedLists() {
+            List<ListEmitter> out = new ArrayList<>();
+            double ionScale = Double.NaN;
+            for (Object entry : lists) {
+                if (entry instanceof ListEmitter fixed) {
+                    out.add(fixed);
+                } else if (entry instanceof AlkaliEmitter alkali) {
+                    out.add(alkaliLines(alkali));
+                } else {
+                    if (Double.isNaN(ionScale)) {
+                        ionScale = strongestIonLine();
+                    }
+                    out.addAll(relativeLines((RelativeList) entry, ionScale));
+                }
+            }
+            return out;
+        }
+
+        private ListEmitter alkaliLines(AlkaliEmitter e) {
+            AlkaliAtom atom = e.atom();
+            double beta = Math.abs(velocity) / PhysicalConstants.C;
+            double lowHz = PhysicalConstants.C / (grid.edge(grid.pixels()) * 1.02e-9 * (1 + beta));
+            double highHz = PhysicalConstants.C / (grid.edge(0) * 0.98e-9 * (1 - beta));
+            double kT = PhysicalConstants.K * temperature;
+            double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
+            double partition = 0;
+            for (int n = 1; n <= nMax; n++) {
+                for (int l = 0; l <= Math.min(3, n - 1); l++) {
+                    for (int twoJ = Math.max(1, 2 * l - 1); twoJ <= 2 * l + 1; twoJ += 2) {
+                        if (n < atom.lowestN(l)) {
+                            continue;
+                        }
+                        try {
+                            partition += (twoJ + 1) * Math.exp(-atom.energyPerCm(State.of(n, l, twoJ)) * hcPerCm / kT);
+                        } catch (RydbergException ex) {
+                            // no energy for it: not in the model, not in the sum
+                        }
+                    }
+                }
+            }
+            List<AlkaliLines.Line> found = AlkaliLines.window(atom, lowHz, highHz, nMax, 3, 0, f -> { });
+            double[] nm = new double[found.size()];
+            double[] photons = new double[found.size()];
+            String[] labels = new String[found.size()];
+            for (int i = 0; i < found.size(); i++) {
+                AlkaliLines.Line line = found.get(i);
+                nm[i] = PhysicalConstants.C / line.frequency() * 1e9;
+                photons[i] = e.abundance() * (line.upper().twoJ() + 1) * line.einsteinA()
+                        * Math.exp(-atom.energyPerCm(line.upper()) * hcPerCm / kT) / partition;
+                labels[i] = atom.species().notation() + " " + line.label();
+            }
+            return new ListEmitter(atom.species().notation(), nm, photons, e.massKg(), labels);
+        }
+
+        /** The strongest one-electron line's photon rate at abundance 1, or 0 without ions. */
+        private double strongestIonLine() {
+            if (ions.isEmpty()) {
+                return 0;
+            }
+            Builder probe = Scene.builder(grid).medium(medium).nMax(nMax).temperature(temperature);
+            for (HydrogenLikeEmitter ion : ions) {
+                probe.hydrogenLike(ion.species(), ion.model(), 1);
+            }
+            Lines ionLines = probe.build().lines();
+            double strongest = 0;
+            for (int i = 0; i < ionLines.size(); i++) {
+                strongest = Math.max(strongest, ionLines.photons(i));
+            }
+            return strongest;
+        }
+
+        private List<ListEmitter> relativeLines(RelativeList r, double ionScale) {
+            LineList list = r.list();
+            double[] positions = new double[list.size()];
+            for (int i = 0; i < positions.length; i++) {
+                positions[i] = list.position(i);
+            }
+            double[] vacuum = new double[positions.length];
+            SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.NANOMETRE, Medium.vacuum(), vacuum);
+            double strongest = 0;
+            for (int i = 0; i < list.size(); i++) {
+                strongest = Math.max(strongest, list.intensity(i).orElse(0));
+            }
+            double scale = ionScale > 0 ? ionScale / strongest : 1;
+            List<ListEmitter> out = new ArrayList<>();
+            for (Species species : list.coveredSpecies()) {
+                double[] nm = new double[list.size()];
+                double[] photons = new double[list.size()];
+                String[] labels = new String[list.size()];
+                int n = 0;
+                for (int i = 0; i < list.size(); i++) {
+                    if (list.species(i).equals(species) && list.intensity(i).isPresent()) {
+                        nm[n] = vacuum[i];
+                        photons[n] = list.intensity(i).getAsDouble() * scale;
+                        labels[n] = species.notation() + " " + list.position(i) + " " + list.unit().symbol()
+                                + (list.medium() == null ? "" : " " + list.medium().label());
+                        n++;
+                    }
+                }
+                Nucleus nucleus = Objects.requireNonNull(r.nuclei().apply(species), "nucleus of " + species.notation());
+                double mass = nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
+                out.add(new ListEmitter(species.notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n), mass,
+                        Arrays.copyOf(labels, n)));
+            }
+            return out;
         }
 
         /**
@@ -569,6 +739,12 @@ public final class Scene {
     }
 
     private record ListEmitter(String label, double[] vacuumNm, double[] photons, double massKg, String[] labels) {
+    }
+
+    private record AlkaliEmitter(AlkaliAtom atom, double abundance, double massKg) {
+    }
+
+    private record RelativeList(LineList list, Function<Species, Nucleus> nuclei) {
     }
 
     /** Growable columns of lines. */

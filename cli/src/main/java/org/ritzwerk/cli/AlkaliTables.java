@@ -1,102 +1,22 @@
 package org.ritzwerk.cli;
 
-import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
-import java.util.function.DoubleConsumer;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
-import org.ritzwerk.engine.rydberg.Level;
-import org.ritzwerk.engine.rydberg.RydbergException;
 import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
 
 /**
- * Electric-dipole lines of a neutral alkali atom for {@code ritzwerk lines}: all lines between
- * the model's levels in a frequency window, one transition in detail, or a two-photon ladder.
+ * The alkali parts of {@code ritzwerk lines}: reading {@code --transition} and {@code --ladder}
+ * and the tables of one transition in detail or a two-photon ladder. The lines themselves come
+ * from the engine's {@link AlkaliLines}.
  */
-final class AlkaliLines {
+final class AlkaliTables {
 
-    /** Hartree energy over h c, for f from S: f = 2/3 (Delta E / E_h) S / g_lower (atomic units). */
-    private static final double HARTREE_PER_CM = 2 * PhysicalConstants.RYDBERG.value() / 100;
-
-    private AlkaliLines() {
-    }
-
-    /** One line: upper and lower state, frequency, A, f, S. */
-    record Line(AlkaliAtom atom, State upper, State lower, double frequency, double einsteinA,
-            double oscillatorStrength, double lineStrength) {
-    }
-
-    /**
-     * @param atom     the atom
-     * @param lowHz    window start, Hz
-     * @param highHz   window end, Hz
-     * @param nMax     highest n of both levels
-     * @param lMax     highest l
-     * @param minA     smallest Einstein A kept
-     * @param progress told the fraction done
-     * @return the lines in the window
-     */
-    static List<Line> window(AlkaliAtom atom, double lowHz, double highHz, int nMax, int lMax, double minA,
-            DoubleConsumer progress) {
-        List<Level> levels = new ArrayList<>();
-        for (int n = 1; n <= nMax; n++) {
-            for (int l = 0; l <= Math.min(lMax, n - 1); l++) {
-                for (int twoJ = Math.max(1, 2 * l - 1); twoJ <= 2 * l + 1; twoJ += 2) {
-                    if (n < atom.lowestN(l)) {
-                        continue;
-                    }
-                    try {
-                        levels.add(atom.level(State.of(n, l, twoJ)));
-                    } catch (RydbergException e) {
-                        // No energy for it (below a fit's validity, nothing measured): no lines either.
-                    }
-                }
-            }
-        }
-        levels.sort(Comparator.comparingDouble(Level::energyPerCm));
-        double hzPerCm = PhysicalConstants.C * 100;
-        List<Line> found = new ArrayList<>();
-        for (int u = 0; u < levels.size(); u++) {
-            Level upper = levels.get(u);
-            for (int k = 0; k < u; k++) {
-                Level lower = levels.get(k);
-                double hz = (upper.energyPerCm() - lower.energyPerCm()) * hzPerCm;
-                if (hz < lowHz || hz > highHz || !allowed(upper.state(), lower.state())) {
-                    continue;
-                }
-                Line line = line(atom, upper.state(), lower.state());
-                if (line.einsteinA() >= minA) {
-                    found.add(line);
-                }
-            }
-            progress.accept((u + 1.0) / levels.size());
-        }
-        found.sort(Comparator.comparingDouble(Line::frequency).reversed());
-        return found;
-    }
-
-    /** @return whether an E1 line joins the two states (Delta l = 1, Delta j <= 1) */
-    static boolean allowed(State a, State b) {
-        return Math.abs(a.l() - b.l()) == 1 && Math.abs(a.twoJ() - b.twoJ()) <= 2;
-    }
-
-    /**
-     * @param atom  the atom
-     * @param upper the upper state
-     * @param lower the lower state
-     * @return the line's figures
-     */
-    static Line line(AlkaliAtom atom, State upper, State lower) {
-        double hz = atom.frequencyHz(lower, upper);
-        double reduced = atom.reducedDipole(upper, lower);
-        double strength = reduced * reduced;
-        double deltaHartree = hz / PhysicalConstants.C / 100 / HARTREE_PER_CM;
-        double f = 2.0 / 3.0 * deltaHartree * strength / (lower.twoJ() + 1);
-        return new Line(atom, upper, lower, hz, atom.einsteinA(upper, lower), f, strength);
+    private AlkaliTables() {
     }
 
     /**
@@ -135,14 +55,15 @@ final class AlkaliLines {
 
     /** The transition table: one row, with both states' lifetimes. */
     static Table transition(AlkaliAtom atom, State a, State b, double temperature) {
-        if (!allowed(a, b)) {
+        if (!AlkaliLines.isElectricDipole(a, b)) {
             throw new IllegalArgumentException("--transition: " + a.notation() + " and " + b.notation()
                     + " are not joined by an electric-dipole line (needs Delta l = 1, Delta j <= 1)");
         }
         boolean aUpper = atom.energyPerCm(a) > atom.energyPerCm(b);
         State upper = aUpper ? a : b;
         State lower = aUpper ? b : a;
-        Line line = line(atom, upper, lower);
+        AlkaliLines.Line line = AlkaliLines.line(atom, upper,
+                lower);
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),

@@ -1,0 +1,142 @@
+package org.ritzwerk.engine.calibrate;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * The result of a {@link Calibrator}: the peaks found, the first pairing and the refined one, the
+ * fitted {@link DispersionSolution}, a label per fitted pair naming its lamp line, and the
+ * problem and settings that made it, so a report can say what was done.
+ *
+ * <p>Immutable and thread-safe.
+ */
+public final class Calibration {
+
+    private final CalibrationProblem problem;
+    private final Calibrator settings;
+    private final Peaks peaks;
+    private final LampMatch firstMatch;
+    private final LampMatch match;
+    private final DispersionSolution solution;
+    private final List<String> pairLabels;
+
+    Calibration(CalibrationProblem problem, Calibrator settings, Peaks peaks, LampMatch firstMatch, LampMatch match,
+            DispersionSolution solution) {
+        this.problem = problem;
+        this.settings = settings;
+        this.peaks = peaks;
+        this.firstMatch = firstMatch;
+        this.match = match;
+        this.solution = solution;
+        List<String> labels = new ArrayList<>(match.size());
+        for (int i = 0; i < match.size(); i++) {
+            labels.add(problem.lamp().label(match.lineIndex(i)));
+        }
+        this.pairLabels = List.copyOf(labels);
+    }
+
+    /** @return the problem solved */
+    public CalibrationProblem problem() {
+        return problem;
+    }
+
+    /** @return the solver settings used */
+    public Calibrator settings() {
+        return settings;
+    }
+
+    /** @return every peak found in the exposure */
+    public Peaks peaks() {
+        return peaks;
+    }
+
+    /** @return the pairing of the strongest peaks that seeded the solution (its strong-peak figures) */
+    public LampMatch firstMatch() {
+        return firstMatch;
+    }
+
+    /** @return the refined pairing the solution was fitted to, sorted by pixel */
+    public LampMatch match() {
+        return match;
+    }
+
+    /** @return the fitted pixel-to-wavelength solution */
+    public DispersionSolution solution() {
+        return solution;
+    }
+
+    /**
+     * @param i a fitted pair, 0 to {@code solution().size() - 1}
+     * @return the lamp line of that pair as listed ({@link LampSet#label})
+     */
+    public String pairLabel(int i) {
+        return pairLabels.get(i);
+    }
+
+    /** @return the lamp line of every fitted pair, in pair order */
+    public List<String> pairLabels() {
+        return pairLabels;
+    }
+
+    /** @return how many of the strongest peaks the first pairing matched */
+    public int strongMatched() {
+        return match.strongMatched();
+    }
+
+    /** @return how many strongest peaks the first pairing used */
+    public int strongPeaks() {
+        return match.strongPeaks();
+    }
+
+    /** @return the fraction of the strongest peaks matched, 0 to 1 */
+    public double matchedFraction() {
+        return match.inlierFraction();
+    }
+
+    /** @return the lowest pixel of a pair used in the fit */
+    public double lowestUsedPixel() {
+        double lowest = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < solution.size(); i++) {
+            if (!solution.isRejected(i)) {
+                lowest = Math.min(lowest, solution.pixel(i));
+            }
+        }
+        return lowest;
+    }
+
+    /** @return the highest pixel of a pair used in the fit */
+    public double highestUsedPixel() {
+        double highest = Double.NEGATIVE_INFINITY;
+        for (int i = 0; i < solution.size(); i++) {
+            if (!solution.isRejected(i)) {
+                highest = Math.max(highest, solution.pixel(i));
+            }
+        }
+        return highest;
+    }
+
+    /** @return the fraction of the detector between the lowest and highest pixel used, 0 to 1 */
+    public double coverage() {
+        return (highestUsedPixel() - lowestUsedPixel()) / Math.max(1, problem.pixels() - 1);
+    }
+
+    /** @return how many peaks reached the saturation level (their centroids come from the wings) */
+    public int saturatedPeaks() {
+        int n = 0;
+        for (int k = 0; k < peaks.size(); k++) {
+            n += peaks.has(k, PeakFlag.SATURATED) ? 1 : 0;
+        }
+        return n;
+    }
+
+    /** @return a one-line description: the exposure and the lamp sets */
+    public String description() {
+        return "spectrum " + problem.source() + "; lamp sets " + String.join(", ", problem.lamp().setIds());
+    }
+
+    @Override
+    public String toString() {
+        return "Calibration[" + description() + ", degree " + solution.degree() + ", " + solution.usedCount()
+                + " lines used, rms " + solution.rmsNm() + " nm]";
+    }
+}

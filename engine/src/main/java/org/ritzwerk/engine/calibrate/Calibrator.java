@@ -1,0 +1,217 @@
+package org.ritzwerk.engine.calibrate;
+
+import java.util.Objects;
+
+/**
+ * The calibration job: from a lamp exposure to a pixel-to-wavelength solution, in four steps.
+ * <ol>
+ *   <li>find the peaks ({@link PeakFinder}: baseline, noise, S/N threshold, Gaussian centroids
+ *       with uncertainties);</li>
+ *   <li>pair the strongest peaks with the lamp's lines with no starting solution, or within the
+ *       problem's prior ({@link LampMatcher});</li>
+ *   <li>refine: every peak, placed by that first solution, is assigned to the lamp lines by the
+ *       line identifier's optimal one-to-one assignment ({@link IdentifierRefinement});</li>
+ *   <li>fit a weighted polynomial with outlier clipping ({@link DispersionFit}).</li>
+ * </ol>
+ * The command line's {@code calibrate} runs exactly this; the defaults here are its defaults.
+ *
+ * <p>Configured with {@code withX} methods that return new solvers; immutable, reusable and
+ * thread-safe. The same problem gives the same result bit for bit (nothing random).
+ */
+public final class Calibrator {
+
+    /** Default pairing tolerance, pixels. */
+    public static final double DEFAULT_TOLERANCE = 3;
+    /** Default fraction of the strongest peaks that a solution must pair. */
+    public static final double DEFAULT_MIN_MATCHED = 0.6;
+    /** Default highest degree of the automatically chosen polynomial. */
+    public static final int DEFAULT_MAX_DEGREE = 3;
+
+    private final double threshold;
+    private final double saturation;
+    private final boolean negativeCountsAllowed;
+    private final double tolerance;
+    private final double minMatched;
+    private final double clip;
+    private final int degree;
+    private final int maxDegree;
+
+    private Calibrator(double threshold, double saturation, boolean negativeCountsAllowed, double tolerance,
+            double minMatched, double clip, int degree, int maxDegree) {
+        this.threshold = threshold;
+        this.saturation = saturation;
+        this.negativeCountsAllowed = negativeCountsAllowed;
+        this.tolerance = tolerance;
+        this.minMatched = minMatched;
+        this.clip = clip;
+        this.degree = degree;
+        this.maxDegree = maxDegree;
+    }
+
+    /**
+     * @return S/N threshold {@value PeakFinder#DEFAULT_THRESHOLD}, no saturation level, negative
+     *         counts allowed (dark-subtracted exposures), tolerance {@value #DEFAULT_TOLERANCE}
+     *         pixels, at least {@value #DEFAULT_MIN_MATCHED} of the strongest peaks paired,
+     *         clipping at {@value DispersionFit#DEFAULT_CLIP} robust standard deviations, degree
+     *         chosen by AICc up to {@value #DEFAULT_MAX_DEGREE}
+     */
+    public static Calibrator defaults() {
+        return new Calibrator(PeakFinder.DEFAULT_THRESHOLD, Double.NaN, true, DEFAULT_TOLERANCE, DEFAULT_MIN_MATCHED,
+                DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE);
+    }
+
+    /**
+     * @param snr the signal-to-noise ratio a peak needs (see {@link PeakFinder#withThreshold})
+     * @return a solver with that threshold
+     */
+    public Calibrator withThreshold(double snr) {
+        PeakFinder.defaults().withThreshold(snr); // validates
+        return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree, maxDegree);
+    }
+
+    /**
+     * @param counts the counts at which the detector saturates; such peaks are flagged and left out
+     *               of the fit (see {@link PeakFinder#withSaturationLevel})
+     * @return a solver with that saturation level
+     */
+    public Calibrator withSaturationLevel(double counts) {
+        PeakFinder.defaults().withSaturationLevel(counts); // validates
+        return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree, maxDegree);
+    }
+
+    /**
+     * @param allowed whether negative counts (dark-subtracted data) are accepted
+     * @return a solver with that setting
+     */
+    public Calibrator withNegativeCountsAllowed(boolean allowed) {
+        return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree, maxDegree);
+    }
+
+    /**
+     * @param pixels how far (pixels) a peak may lie from a line's predicted place to pair; positive
+     * @return a solver with that tolerance
+     */
+    public Calibrator withTolerance(double pixels) {
+        LampMatcher.defaults().withTolerance(pixels); // validates
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree, maxDegree);
+    }
+
+    /**
+     * @param fraction the fraction of the strongest peaks a solution must pair with lamp lines,
+     *                 0 to 1; lower it for lamps with many lines missing from the set
+     * @return a solver with that fraction
+     */
+    public Calibrator withMinMatchedFraction(double fraction) {
+        LampMatcher.defaults().withMinInlierFraction(fraction); // validates
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree, maxDegree);
+    }
+
+    /**
+     * @param k reject pairs beyond k robust standard deviations, one at a time; positive
+     * @return a solver with that clipping
+     */
+    public Calibrator withClipping(double k) {
+        DispersionFit.automatic(1).withClipping(k, DispersionFit.DEFAULT_CLIP_ITERATIONS); // validates
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree, maxDegree);
+    }
+
+    /**
+     * @param fixedDegree the polynomial degree, 1 to {@value DispersionFit#MAX_DEGREE}
+     * @return a solver that fits that degree
+     */
+    public Calibrator withDegree(int fixedDegree) {
+        DispersionFit.ofDegree(fixedDegree); // validates
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, fixedDegree,
+                maxDegree);
+    }
+
+    /**
+     * @param highest the highest degree AICc may choose, 1 to {@value DispersionFit#MAX_DEGREE}
+     * @return a solver that chooses the degree
+     */
+    public Calibrator withAutomaticDegree(int highest) {
+        DispersionFit.automatic(highest); // validates
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest);
+    }
+
+    /** @return the S/N threshold */
+    public double threshold() {
+        return threshold;
+    }
+
+    /** @return the saturation level in counts, NaN when none */
+    public double saturationLevel() {
+        return saturation;
+    }
+
+    /** @return the pairing tolerance, pixels */
+    public double tolerance() {
+        return tolerance;
+    }
+
+    /** @return the fraction of the strongest peaks a solution must pair */
+    public double minMatchedFraction() {
+        return minMatched;
+    }
+
+    /** @return the clipping threshold, robust standard deviations */
+    public double clipping() {
+        return clip;
+    }
+
+    /** @return the fixed degree, or -1 when AICc chooses it */
+    public int degree() {
+        return degree;
+    }
+
+    /** @return the highest degree AICc may choose */
+    public int maxDegree() {
+        return maxDegree;
+    }
+
+    /**
+     * Runs the four steps.
+     *
+     * @param problem the exposure, lamp and prior
+     * @return the calibration: peaks, pairs, solution and the settings used
+     * @throws CalibrationException when the exposure cannot be calibrated (no or too few peaks, too
+     *         few lines in the prior, no solution within the prior, a lamp that does not explain
+     *         the spectrum); the message names the exposure
+     * @throws IllegalArgumentException for unusable counts, naming the exposure and the pixel
+     */
+    public Calibration calibrate(CalibrationProblem problem) {
+        Objects.requireNonNull(problem, "problem");
+        PeakFinder finder = PeakFinder.defaults().withThreshold(threshold)
+                .withNegativeCountsAllowed(negativeCountsAllowed);
+        if (!Double.isNaN(saturation)) {
+            finder = finder.withSaturationLevel(saturation);
+        }
+        Peaks peaks;
+        try {
+            peaks = finder.find(problem.countsView(), problem.sigmasView());
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException(problem.source() + ": " + e.getMessage(), e);
+        }
+        LampSet lamp = problem.lamp();
+        LampMatcher matcher = LampMatcher.defaults().withTolerance(tolerance).withPrior(problem.prior())
+                .withMinInlierFraction(minMatched);
+        LampMatch first = matcher.match(peaks, lamp.lines());
+        DispersionFit fit = fit();
+        LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, lamp.lines(),
+                lamp.speciesArray(), tolerance);
+        return new Calibration(problem, this, peaks, first, refined, refined.fit(fit));
+    }
+
+    /** @return the dispersion fit these settings make */
+    public DispersionFit fit() {
+        DispersionFit fit = degree > 0 ? DispersionFit.ofDegree(degree) : DispersionFit.automatic(maxDegree);
+        return fit.withClipping(clip, DispersionFit.DEFAULT_CLIP_ITERATIONS);
+    }
+
+    @Override
+    public String toString() {
+        return "Calibrator[threshold=" + threshold + ", saturation=" + saturation + ", tolerance=" + tolerance
+                + " px, minMatched=" + minMatched + ", clip=" + clip + ", degree="
+                + (degree > 0 ? Integer.toString(degree) : "auto<=" + maxDegree) + "]";
+    }
+}

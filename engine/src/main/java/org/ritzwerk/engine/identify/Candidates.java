@@ -1,0 +1,250 @@
+package org.ritzwerk.engine.identify;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
+import java.util.function.Consumer;
+import java.util.function.DoubleConsumer;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.AlkaliLines;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Unit;
+
+/**
+ * The candidate lines for an identification in a vacuum-wavelength window, from every source the
+ * engine knows: one-electron ions (their n -&gt; n' multiplets, entered as blends, or their
+ * fine-structure components), alkali atoms (lines between the quantum-defect model's levels,
+ * l &lt;= 3), and line lists (built-in sets or a user's own). Each line's expected strength is:
+ * <ul>
+ *   <li>one-electron ions: g_upper A, times exp(-(E_upper - E_ground) / kT) when an excitation
+ *       temperature is given (Boltzmann populations, common practice);</li>
+ *   <li>alkali atoms: (2 j_upper + 1) A;</li>
+ *   <li>line lists: the list's relative intensity, else its Einstein A, else unknown.</li>
+ * </ul>
+ * For the multiplets of one-electron ions the physics a plasma estimate needs (upper energy,
+ * weight, A, frequency) is kept and found by {@link #multiplet(LineCatalog, int)}.
+ *
+ * <p>Built with {@link #inWindow(double, double)}; the sources are read in the order they are
+ * added. Immutable and thread-safe once built.
+ */
+public final class Candidates {
+
+    /**
+     * The physics of a one-electron n -&gt; n' multiplet.
+     *
+     * @param model       the ion's model
+     * @param upperN      upper n
+     * @param lowerN      lower n
+     * @param upperEnergy upper energy above the ground state, J
+     * @param weight      upper statistical weight 2 n^2
+     * @param einsteinA   the multiplet's A (weight-averaged), s^-1
+     * @param frequency   Hz
+     */
+    public record Multiplet(HydrogenLikeModel model, int upperN, int lowerN, double upperEnergy, double weight,
+            double einsteinA, double frequency) {
+    }
+
+    private final LineCatalog catalog;
+    private final Map<String, Multiplet> multiplets;
+
+    private Candidates(LineCatalog catalog, Map<String, Multiplet> multiplets) {
+        this.catalog = catalog;
+        this.multiplets = multiplets;
+    }
+
+    /**
+     * @param lowVacuumMetres  the window's short end, vacuum metres, positive
+     * @param highVacuumMetres the window's long end, vacuum metres, at least the short end
+     * @return a builder
+     */
+    public static Builder inWindow(double lowVacuumMetres, double highVacuumMetres) {
+        if (!(lowVacuumMetres > 0) || !(highVacuumMetres >= lowVacuumMetres) || Double.isInfinite(highVacuumMetres)) {
+            throw new IllegalArgumentException("the window must be positive and run from short to long wavelength, got "
+                    + lowVacuumMetres + " to " + highVacuumMetres + " m");
+        }
+        return new Builder(lowVacuumMetres, highVacuumMetres);
+    }
+
+    /** @return the candidate lines */
+    public LineCatalog catalog() {
+        return catalog;
+    }
+
+    /**
+     * @param lines a catalog whose lines keep this one's species and labels (this catalog,
+     *              or one {@link LineCatalog#shifted shifted} or {@link LineCatalog#offset offset})
+     * @param j     a line of it
+     * @return the multiplet physics of that line, or null when it is not a one-electron multiplet
+     */
+    public Multiplet multiplet(LineCatalog lines, int j) {
+        return multiplets.get(key(lines.species(j), lines.label(j)));
+    }
+
+    private static String key(Species species, String label) {
+        return species.notation() + " " + label;
+    }
+
+    /** Builds {@link Candidates}. Not thread-safe. */
+    public static final class Builder {
+
+        private final double lo;
+        private final double hi;
+        private final List<Consumer<LineCatalog.Builder>> sources = new ArrayList<>();
+        private final Map<String, Multiplet> multiplets = new HashMap<>();
+        private double excitationTemperature = Double.NaN;
+        private int count;
+
+        private Builder(double lo, double hi) {
+            this.lo = lo;
+            this.hi = hi;
+        }
+
+        /**
+         * @param kelvin weigh one-electron lines by exp(-E_upper / kT) at this temperature, positive
+         *               and below 1e9 K
+         * @return this builder
+         */
+        public Builder excitationTemperature(double kelvin) {
+            if (!(kelvin > 0 && kelvin < 1e9)) {
+                throw new IllegalArgumentException("the excitation temperature must be a positive number of kelvin, "
+                        + "got " + kelvin);
+            }
+            this.excitationTemperature = kelvin;
+            return this;
+        }
+
+        /**
+         * @param species    the ion
+         * @param model      its level model
+         * @param nMax       highest upper n
+         * @param components true for fine-structure components, false for n -&gt; n' multiplets
+         *                   (entered as blends: one may explain each of its components' peaks)
+         * @return this builder
+         */
+        public Builder hydrogenLike(Species species, HydrogenLikeModel model, int nMax, boolean components) {
+            Objects.requireNonNull(species, "species");
+            Objects.requireNonNull(model, "model");
+            sources.add(b -> addHydrogenLike(b, species, model, nMax, components));
+            return this;
+        }
+
+        /**
+         * @param atom     the atom (its lines between levels with l &lt;= 3, n &lt;= nMax)
+         * @param nMax     highest n of both levels
+         * @param progress told the fraction done; may be a no-op
+         * @return this builder
+         */
+        public Builder alkali(AlkaliAtom atom, int nMax, DoubleConsumer progress) {
+            Objects.requireNonNull(atom, "atom");
+            Objects.requireNonNull(progress, "progress");
+            sources.add(b -> {
+                for (AlkaliLines.Line line : AlkaliLines.window(atom, PhysicalConstants.C / hi, PhysicalConstants.C / lo,
+                        nMax, 3, 0, progress)) {
+                    b.add(atom.species(), line.vacuumWavelengthMetres(), 0, (line.upper().twoJ() + 1) * line.einsteinA(),
+                            line.label());
+                    count++;
+                }
+            });
+            return this;
+        }
+
+        /**
+         * @param list a line list in any unit and medium; its lines in the window are candidates,
+         *             labelled "upper - lower" where the list names both levels, else by set id and position
+         * @return this builder
+         */
+        public Builder lineList(LineList list) {
+            Objects.requireNonNull(list, "list");
+            sources.add(b -> addLineList(b, list));
+            return this;
+        }
+
+        /**
+         * @return the candidates
+         * @throws IllegalArgumentException when no candidate line lies in the window
+         */
+        public Candidates build() {
+            LineCatalog.Builder builder = LineCatalog.builder();
+            count = 0;
+            multiplets.clear();
+            for (Consumer<LineCatalog.Builder> source : sources) {
+                source.accept(builder);
+            }
+            if (count == 0) {
+                throw new IllegalArgumentException("no candidate line lies in the range of the peaks ("
+                        + String.format(Locale.ROOT, "%.6g to %.6g nm in vacuum", lo * 1e9, hi * 1e9) + ")");
+            }
+            return new Candidates(builder.build(), Map.copyOf(multiplets));
+        }
+
+        private void addHydrogenLike(LineCatalog.Builder b, Species species, HydrogenLikeModel model, int nMax,
+                boolean components) {
+            HydrogenLikeLines generator = HydrogenLikeLines.of(model);
+            double fromHz = PhysicalConstants.C / hi;
+            double toHz = PhysicalConstants.C / lo;
+            LineTable table = components ? generator.components(nMax, fromHz, toHz)
+                    : generator.multiplets(nMax, fromHz, toHz);
+            double ground = model.energy(1, 0, 1);
+            for (int i = 0; i < table.size(); i++) {
+                double strength = table.upperWeight(i) * table.einsteinA(i);
+                if (!Double.isNaN(excitationTemperature)) {
+                    int n = table.upperN(i);
+                    double upper = table.upperL(i) < 0 ? model.energy(n, 0, 1)
+                            : model.energy(n, table.upperL(i), table.upperTwoJ(i));
+                    strength *= Math.exp(-(upper - ground) / (PhysicalConstants.K * excitationTemperature));
+                }
+                String label = (components ? table.upperLabel(i) + " - " + table.lowerLabel(i) + " " : "")
+                        + table.seriesName(i);
+                double vacuum = PhysicalConstants.C / table.frequency(i);
+                if (components) {
+                    b.add(species, vacuum, 0, strength, label);
+                } else {
+                    int n = table.upperN(i);
+                    multiplets.put(key(species, label), new Multiplet(model, n, table.lowerN(i),
+                            model.energy(n, 0, 1) - ground, table.upperWeight(i), table.einsteinA(i),
+                            table.frequency(i)));
+                    // A multiplet blends its fine-structure components: it may explain each of
+                    // them where the instrument half-resolves them.
+                    b.addBlend(species, vacuum, 0, strength, label);
+                }
+                count++;
+            }
+        }
+
+        private void addLineList(LineCatalog.Builder b, LineList list) {
+            double[] positions = new double[list.size()];
+            for (int i = 0; i < positions.length; i++) {
+                positions[i] = list.position(i);
+            }
+            double[] vacuum = new double[positions.length];
+            try {
+                SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.METRE, Medium.vacuum(), vacuum);
+            } catch (IllegalArgumentException e) {
+                throw new IllegalArgumentException("line list " + list.info().id() + ": " + e.getMessage(), e);
+            }
+            for (int i = 0; i < list.size(); i++) {
+                if (vacuum[i] < lo || vacuum[i] > hi) {
+                    continue;
+                }
+                double sigma = list.uncertainty(i).isPresent()
+                        ? Math.abs(vacuum[i] / list.position(i)) * list.uncertainty(i).getAsDouble() : 0;
+                double strength = list.intensity(i).isPresent() ? list.intensity(i).getAsDouble()
+                        : list.einsteinA(i).orElse(Double.NaN);
+                String label = list.lower(i) != null && list.upper(i) != null ? list.upper(i) + " - " + list.lower(i)
+                        : list.info().id() + " " + list.position(i) + " " + list.unit().symbol();
+                b.add(list.species(i), vacuum[i], sigma, strength, label);
+                count++;
+            }
+        }
+    }
+}

@@ -1,0 +1,133 @@
+package org.ritzwerk.engine.calibrate;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.Provenance;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Unit;
+
+/**
+ * The calibration job ({@link Calibrator}) on rendered neon exposures ({@link LampScene}, whose
+ * dispersion is known): it gives exactly what the four steps give when called one by one, it is
+ * accurate against the known cubic, a saved solution applied to a second exposure gives its
+ * wavelengths, and bad problems are refused with messages naming what is wrong.
+ */
+class CalibratorTest {
+
+    private static final Species NE = Species.parse("Ne I");
+
+    /** The neon lamp lines of LampScene as a line list (air, nm), as a lamp set provider gives them. */
+    static LineList neonList(Medium medium) {
+        LineList.Builder b = LineList.builder(new DataSetInfo("test-neon", DataKind.LAMP_LINES, "test neon", "1",
+                Provenance.computedBy("test"), List.of(NE)), Unit.NANOMETRE, medium, "");
+        for (int i = 0; i < LampScene.NEON_NM.length; i++) {
+            double nm = medium == Medium.vacuum() ? Medium.air().toVacuum(LampScene.NEON_NM[i] * 1e-9) * 1e9
+                    : LampScene.NEON_NM[i];
+            b.add(NE, nm, Double.NaN, LampScene.NEON_INTENSITY[i], null, Double.NaN, null, null, null);
+        }
+        return b.build();
+    }
+
+    @Test
+    void theJobGivesWhatTheFourStepsGiveOneByOne() {
+        double[] counts = new LampScene(40, 7, 8).exposure(1);
+        LampSet lamp = LampSet.of(List.of(neonList(Medium.air())), Medium.air());
+        Calibration job = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts).lamp(lamp).build());
+
+        Peaks peaks = PeakFinder.defaults().withNegativeCountsAllowed(true).find(counts);
+        LampMatch first = LampMatcher.defaults().withMinInlierFraction(0.6).match(peaks, lamp.lines());
+        DispersionFit fit = DispersionFit.automatic(3).withClipping(3.5, DispersionFit.DEFAULT_CLIP_ITERATIONS);
+        LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, lamp.lines(),
+                lamp.speciesArray(), 3);
+        DispersionSolution byHand = refined.fit(fit);
+
+        assertArrayEquals(byHand.scaledCoefficients(), job.solution().scaledCoefficients(), 0.0, "bit for bit");
+        assertEquals(byHand.usedCount(), job.solution().usedCount());
+        assertEquals(peaks.size(), job.peaks().size());
+        assertEquals(refined.size(), job.pairLabels().size());
+        assertTrue(job.pairLabel(0).startsWith("Ne I "), job.pairLabel(0));
+        assertTrue(job.pairLabel(0).endsWith(" nm air"), job.pairLabel(0));
+    }
+
+    @Test
+    void accurateAgainstTheKnownDispersionAndAppliesToASecondExposure() {
+        LampScene scene = new LampScene(40, 7, 8);
+        LampSet lamp = LampSet.of(List.of(neonList(Medium.air())), Medium.air());
+        Calibration calibration = Calibrator.defaults()
+                .calibrate(CalibrationProblem.builder(scene.exposure(1)).lamp(lamp).source("lamp-1").build());
+        DispersionSolution solution = calibration.solution();
+        assertEquals(Medium.air(), solution.medium());
+        assertTrue(calibration.coverage() > 0.9, "coverage " + calibration.coverage());
+        assertTrue(calibration.matchedFraction() >= 0.6);
+        assertEquals(0, calibration.saturatedPeaks());
+        // A second exposure of the same detector (another noise draw) gets the solution's axis; its
+        // wavelengths agree with the known truth within 4 stated standard uncertainties everywhere.
+        double[] axis = solution.pixelCentreWavelengths(LampScene.PIXELS);
+        double[] sigma = solution.pixelCentreWavelengthSigmas(LampScene.PIXELS);
+        for (int p = 0; p < LampScene.PIXELS; p += 97) {
+            assertEquals(LampScene.truthAt(p), axis[p], 4 * sigma[p] + 1e-4, "pixel " + p);
+            assertTrue(sigma[p] > 0 && sigma[p] < 0.01, "sigma at " + p + ": " + sigma[p]);
+        }
+        assertTrue(calibration.description().contains("lamp-1") && calibration.description().contains("test-neon"));
+    }
+
+    @Test
+    void aVacuumListIsConvertedToTheSolutionsMedium() {
+        double[] counts = new LampScene(40, 7, 8).exposure(1);
+        LampSet fromVacuum = LampSet.of(List.of(neonList(Medium.vacuum())), Medium.air());
+        LampSet fromAir = LampSet.of(List.of(neonList(Medium.air())), Medium.air());
+        for (int i = 0; i < fromAir.size(); i++) {
+            // Round trip through the standard-air model: equal to well below a picometre.
+            assertEquals(fromAir.lines().wavelength(i), fromVacuum.lines().wavelength(i), 1e-9);
+        }
+        assertTrue(fromVacuum.label(0).endsWith(" nm vacuum"), fromVacuum.label(0));
+        Calibration a = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts).lamp(fromAir).build());
+        Calibration v = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts).lamp(fromVacuum).build());
+        assertEquals(a.solution().wavelengthAt(2000), v.solution().wavelengthAt(2000), 1e-6);
+    }
+
+    @Test
+    void settingsAreKeptAndValidated() {
+        Calibrator c = Calibrator.defaults().withThreshold(8).withTolerance(2).withMinMatchedFraction(0.5)
+                .withClipping(3).withDegree(2).withSaturationLevel(60_000);
+        assertEquals(8, c.threshold());
+        assertEquals(2, c.tolerance());
+        assertEquals(0.5, c.minMatchedFraction());
+        assertEquals(3, c.clipping());
+        assertEquals(2, c.degree());
+        assertEquals(60_000, c.saturationLevel());
+        assertEquals(-1, c.withAutomaticDegree(4).degree());
+        assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withTolerance(0));
+        assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withDegree(0));
+        assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withMinMatchedFraction(1.5));
+        assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withThreshold(Double.NaN));
+    }
+
+    @Test
+    void badProblemsAreRefusedNamingWhatIsWrong() {
+        LampSet lamp = LampSet.of(List.of(neonList(Medium.air())), Medium.air());
+        IllegalArgumentException noLamp = assertThrows(IllegalArgumentException.class,
+                () -> CalibrationProblem.builder(new double[100]).build());
+        assertTrue(noLamp.getMessage().contains("lamp"), noLamp.getMessage());
+        IllegalArgumentException sigmas = assertThrows(IllegalArgumentException.class,
+                () -> CalibrationProblem.builder(new double[100]).sigmas(new double[99]).lamp(lamp).source("x.csv")
+                        .build());
+        assertTrue(sigmas.getMessage().contains("x.csv") && sigmas.getMessage().contains("99"), sigmas.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> CalibrationProblem.builder(new double[0]).lamp(lamp).build());
+        double[] counts = new LampScene(40, 7, 8).exposure(1);
+        counts[17] = Double.NaN;
+        IllegalArgumentException nan = assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults()
+                .calibrate(CalibrationProblem.builder(counts).lamp(lamp).source("lamp.csv").build()));
+        assertTrue(nan.getMessage().startsWith("lamp.csv: "), nan.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> LampSet.of(List.of(), Medium.air()));
+    }
+}

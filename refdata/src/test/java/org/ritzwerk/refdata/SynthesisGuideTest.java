@@ -1,0 +1,79 @@
+package org.ritzwerk.refdata;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.AlkaliLines;
+import org.ritzwerk.engine.rydberg.State;
+import org.ritzwerk.engine.synth.Continuum;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.engine.synth.SyntheticSpectrum;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * The README's scene example, compiled and run: an ion, an alkali atom and a lamp line list with
+ * a continuum and noise. Checks: the alkali lines follow Boltzmann's law (the D2/D1 photon ratio
+ * is (4 A_D2 / 2 A_D1) exp(-(E_D2 - E_D1) / kT), common practice), and the lamp list's strongest
+ * line gets the photon rate of the strongest ion line.
+ */
+class SynthesisGuideTest {
+
+    @Test
+    void aSceneWithAnIonAnAlkaliAtomALampListAContinuumAndNoise() {
+        NuclearData nuclear = NuclearData.builtIn();
+        DataRegistry registry = DataRegistry.builtIn();
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(nuclear.nucleus(Species.parse("H I")), Tier.DIRAC);
+        AlkaliAtom rubidium = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        LineList neon = registry.lampLines(Species.parse("Ne I"));
+
+        // --- README: scene with an ion, an alkali atom, a lamp list, a continuum and noise ---
+        Scene scene = Scene.builder(PixelGrid.linear(600, 800, 8000))
+                .hydrogenLike(Species.parse("H I"), hydrogen, 1)
+                .alkali(rubidium, 1e-3, nuclear.nucleus(Species.parse("Rb-87 I")))  // Boltzmann over its levels
+                .lineList(neon, nuclear::nucleus)                     // relative intensities, scaled to the ions
+                .temperature(6000).medium(Medium.air()).instrument(Instrument.ofResolvingPower(10_000))
+                .continuum(nm -> Continuum.planckPerWavelength(nm * 1e-9, 6000), 50)
+                .noise(3.0, 7L)
+                .build();
+        SyntheticSpectrum spectrum = scene.render(2);
+        // --- end ---
+
+        Scene.Lines lines = scene.lines();
+        double d2 = Double.NaN;
+        double d1 = Double.NaN;
+        double strongestIon = 0;
+        double strongestNeon = 0;
+        for (int i = 0; i < lines.size(); i++) {
+            String label = lines.label(i);
+            if (label.equals("Rb-87 I 5p 2P3/2 - 5s 2S1/2")) {
+                d2 = lines.photons(i);
+            } else if (label.equals("Rb-87 I 5p 2P1/2 - 5s 2S1/2")) {
+                d1 = lines.photons(i);
+            } else if (label.startsWith("Ne I ")) {
+                strongestNeon = Math.max(strongestNeon, lines.photons(i));
+            } else if (!label.startsWith("Rb")) {
+                strongestIon = Math.max(strongestIon, lines.photons(i));
+            }
+        }
+        double kT = PhysicalConstants.K * 6000;
+        double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
+        State ground = State.parse("5s1/2");
+        State p32 = State.parse("5p3/2");
+        State p12 = State.parse("5p1/2");
+        double expected = 4 * rubidium.einsteinA(p32, ground) / (2 * rubidium.einsteinA(p12, ground))
+                * Math.exp(-(rubidium.energyPerCm(p32) - rubidium.energyPerCm(p12)) * hcPerCm / kT);
+        assertEquals(expected, d2 / d1, 1e-12 * expected);
+        assertTrue(AlkaliLines.isElectricDipole(p32, ground));
+        assertEquals(strongestIon, strongestNeon, 1e-12 * strongestIon, "lamp list scaled to the ions");
+        assertEquals(8000, spectrum.counts().length);
+    }
+}
