@@ -1,8 +1,11 @@
 package org.ritzwerk.refdata;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.EnumSet;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
@@ -92,7 +95,18 @@ public final class PeakFiles {
      */
     public static Peaks read(Path file) {
         String name = file.toString();
-        String text = TabularFiles.read(file);
+        return read(TabularFiles.read(file), name);
+    }
+
+    /**
+     * @param text   a peaks file's text, CSV or JSON (told apart by the source's extension or the
+     *               first non-blank character)
+     * @param source the file's name, for messages
+     * @return the peaks
+     * @throws DataFileException with every problem found
+     */
+    public static Peaks read(String text, String source) {
+        String name = source;
         TabularFiles.Parsed p = TabularFiles.isJson(name, text) ? TabularFiles.parseJson(SPEC, text, name)
                 : TabularFiles.parseCsv(SPEC, text, name);
         p.checkHeader();
@@ -123,5 +137,61 @@ public final class PeakFiles {
         p.throwIfAny();
         return new Peaks(p.header.get("id"), unit, unit.kind() == Kind.WAVELENGTH ? medium : null, positions,
                 uncertainties, intensities, widths, lines);
+    }
+
+    /**
+     * Writes peaks in the CSV encoding; every number is written with the shortest decimal that
+     * reads back as the same double, so {@link #read(String, String)} gives the same values bit
+     * for bit (NaN, "not given", as an empty field).
+     *
+     * @param peaks      the peaks (their {@code lines} are not written)
+     * @param title      the file's title
+     * @param source     where the peaks come from (instrument, run, date)
+     * @param provenance published, from-memory, computed or measured
+     * @param version    the file's version
+     * @return the file's text
+     * @throws IllegalArgumentException when a header value spans lines, a position is not finite and
+     *         positive, or an uncertainty, intensity or width is negative or infinite (naming the peak)
+     */
+    public static String writeCsv(Peaks peaks, String title, String source, String provenance, String version) {
+        Map<String, String> header = new LinkedHashMap<>();
+        header.put("id", peaks.id());
+        header.put("title", title);
+        header.put("source", source);
+        header.put("provenance", provenance);
+        header.put("version", version);
+        header.put("position-unit", peaks.unit().symbol());
+        if (peaks.medium() != null) {
+            header.put("medium", peaks.medium().spec());
+        }
+        for (Map.Entry<String, String> entry : header.entrySet()) {
+            if (entry.getValue() == null || entry.getValue().contains("\n") || entry.getValue().contains("\r")) {
+                throw new IllegalArgumentException("header " + entry.getKey() + " must be one line of text, got "
+                        + entry.getValue());
+            }
+        }
+        List<String[]> rows = new ArrayList<>();
+        for (int k = 0; k < peaks.size(); k++) {
+            if (!(peaks.positions()[k] > 0) || Double.isInfinite(peaks.positions()[k])) {
+                throw new IllegalArgumentException("peak " + k + ": position must be finite and positive, got "
+                        + peaks.positions()[k]);
+            }
+            rows.add(new String[] {Double.toString(peaks.positions()[k]), number(k, "uncertainty",
+                peaks.uncertainties()[k]), number(k, "intensity", peaks.intensities()[k]),
+                number(k, "width", peaks.widths()[k]), ""});
+        }
+        return TabularFiles.writeCsv(SPEC, header, rows);
+    }
+
+    /** An optional non-negative number as the reader takes it: NaN is "not given". */
+    private static String number(int k, String column, double value) {
+        if (Double.isNaN(value)) {
+            return "";
+        }
+        if (!(value >= 0) || Double.isInfinite(value)) {
+            throw new IllegalArgumentException("peak " + k + ": " + column + " must be finite and not negative, got "
+                    + value);
+        }
+        return Double.toString(value);
     }
 }

@@ -114,8 +114,63 @@ public final class SpectrumFiles {
         } catch (IOException e) {
             throw DataFileException.unreadable(file.toString(), e);
         }
-        String source = file.toString();
+        return read(text, file.toString());
+    }
+
+    /**
+     * @param text   a spectrum file's text, CSV or JSON (by its first non-blank character)
+     * @param source the file's name, for messages
+     * @return the spectrum
+     * @throws DataFileException listing every problem
+     */
+    public static Spectrum read(String text, String source) {
         return text.stripLeading().startsWith("{") ? json(source, text) : csv(source, text);
+    }
+
+    /**
+     * Writes a spectrum in the CSV encoding: the format line, its header entries as
+     * {@code # key: value} lines, then {@code pixel}, {@code wavelength_nm} (when it has
+     * wavelengths), {@code counts} and {@code counts_sigma} (when it has them), every number the
+     * shortest decimal that reads back as the same double, so {@link #read(String, String)} gives
+     * the same values bit for bit.
+     *
+     * @param spectrum the spectrum; its values must be finite and its sigmas positive
+     * @return the file's text
+     * @throws IllegalArgumentException naming the pixel of a value the format cannot hold, or a
+     *         header entry that is not one line
+     */
+    public static String writeCsv(Spectrum spectrum) {
+        StringBuilder text = new StringBuilder("# ").append(FORMAT).append(' ').append(VERSION).append('\n');
+        for (Map.Entry<String, String> entry : spectrum.header().entrySet()) {
+            String key = entry.getKey();
+            String value = entry.getValue();
+            if (key.isBlank() || key.contains(":") || (key + value).contains("\n") || (key + value).contains("\r")) {
+                throw new IllegalArgumentException("header entry '" + key + "' must be one line, with no ':' in its key");
+            }
+            text.append("# ").append(key).append(": ").append(value).append('\n');
+        }
+        double[] counts = spectrum.counts();
+        double[] sigmas = spectrum.sigmas();
+        double[] wavelengths = spectrum.wavelengths();
+        text.append("pixel").append(wavelengths != null ? ",wavelength_nm" : "").append(",counts")
+                .append(sigmas != null ? ",counts_sigma" : "").append('\n');
+        for (int p = 0; p < counts.length; p++) {
+            if (!Double.isFinite(counts[p]) || (wavelengths != null && !Double.isFinite(wavelengths[p]))
+                    || (sigmas != null && !(sigmas[p] > 0 && Double.isFinite(sigmas[p])))) {
+                throw new IllegalArgumentException("pixel " + p + ": counts and wavelengths must be finite and "
+                        + "sigmas finite and positive");
+            }
+            text.append(p);
+            if (wavelengths != null) {
+                text.append(',').append(wavelengths[p]);
+            }
+            text.append(',').append(counts[p]);
+            if (sigmas != null) {
+                text.append(',').append(sigmas[p]);
+            }
+            text.append('\n');
+        }
+        return text.toString();
     }
 
     static Spectrum csv(String source, String text) {
