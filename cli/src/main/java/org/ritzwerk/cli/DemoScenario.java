@@ -456,7 +456,7 @@ final class DemoScenario {
                 boolean paired = ratio > 0 && (notation.equals("H I") || notation.equals("D I"));
                 if (!paired) {
                     builder.add(ion.species(), PhysicalConstants.C / table.frequency(i), 0,
-                            table.upperWeight(i) * table.einsteinA(i), notation + " " + table.seriesName(i));
+                            table.upperWeight(i) * table.einsteinA(i), notation + " " + table.lineName(i));
                 }
             }
         }
@@ -470,11 +470,11 @@ final class DemoScenario {
                 double ld = j < 0 ? Double.NaN : PhysicalConstants.C / deuterium.frequency(j);
                 if (j >= 0 && Math.abs(lh - ld) * 1e9 < blendWithin && !resolvedUpper.contains(hydrogen.upperN(i))) {
                     builder.add(h, (lh + ratio * ld) / (1 + ratio), 0, strength,
-                            "H I+D I " + hydrogen.seriesName(i));
+                            "H I+D I " + hydrogen.lineName(i));
                 } else {
-                    builder.add(h, lh, 0, strength, "H I " + hydrogen.seriesName(i));
+                    builder.add(h, lh, 0, strength, "H I " + hydrogen.lineName(i));
                     if (j >= 0) {
-                        builder.add(d, ld, 0, strength * ratio, "D I " + deuterium.seriesName(j));
+                        builder.add(d, ld, 0, strength * ratio, "D I " + deuterium.lineName(j));
                     }
                 }
             }

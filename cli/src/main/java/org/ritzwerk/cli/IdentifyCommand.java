@@ -31,6 +31,7 @@ import picocli.CommandLine.Spec;
 /** {@code ritzwerk identify}: which lines explain the peaks of a measured spectrum. */
 @Command(name = "identify",
         mixinStandardHelpOptions = true,
+        header = "Match measured peaks to candidate spectral lines.",
         description = {
             "Match measured peaks (a ritzwerk-peaks file) to candidate lines: one-electron ions",
             "computed by the engine (--species) and line lists from the data sets or your files",
@@ -250,7 +251,7 @@ final class IdentifyCommand implements Callable<Integer> {
                         strength *= Math.exp(-(upper - ground) / (PhysicalConstants.K * excitationTemperature));
                     }
                     String label = (components ? table.upperLabel(i) + " - " + table.lowerLabel(i) + " " : "")
-                            + table.seriesName(i);
+                            + table.lineName(i);
                     double vacuum = PhysicalConstants.C / table.frequency(i);
                     if (components) {
                         builder.add(ion.species(), vacuum, 0, strength, label);

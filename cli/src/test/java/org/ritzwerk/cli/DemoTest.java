@@ -28,7 +28,7 @@ class DemoTest {
         assertTrue(r.calibrationLinesUsed >= 15, report);
         // Identification: Balmer lines of H and D, He II lines of the core.
         for (String line : new String[] {"H I Balmer alpha", "D I Balmer alpha", "H I+D I Balmer beta",
-            "H I+D I Balmer gamma", "He II Paschen alpha"}) {
+            "H I+D I Balmer gamma", "He II 4686 (4-3)"}) {
             assertTrue(r.identified.contains(line), line + " in " + r.identified);
         }
         // Velocity within 3 of its standard uncertainties of the invented 6 km/s.
