@@ -37,7 +37,9 @@ import picocli.CommandLine.Spec;
             "  ritzwerk lines --species \"C VI\" --from \"1 nm\" --to \"5 nm\" --format json",
             "  ritzwerk lines --species \"Rb-87 I\" --from 10GHz --to 20GHz --n-max 60",
             "  ritzwerk lines --species \"Rb-87 I\" --transition \"50d5/2 -> 51p3/2\"",
-            "  ritzwerk lines --species \"Rb-87 I\" --ladder \"5s1/2,5p3/2,60s1/2\""})
+            "  ritzwerk lines --species \"Rb-87 I\" --ladder \"5s1/2,5p3/2,60s1/2\"",
+            "", "Lasers (--ladder) can injure eyes and skin: read the Safety section of",
+            "README.md first."})
 final class LinesCommand implements Callable<Integer> {
 
     @Spec
