@@ -12,11 +12,12 @@ A row passes when at least one of two independent checks holds:
    are too coarse: at that precision loops close by chance about as often as real ones. To show how often loops close by chance at these tolerances,
    each file is also searched after shifting every row by a random amount (seeded), which
    destroys the real loops; that count is printed as "chance".
-2. Level energies recalled from memory. For the Ne I 2p5 3s - 2p5 3p lines (Paschen 1s - 2p)
-   and the Hg I 6s6p 3P1 - 6s2 1S0 line the level energies below (cm-1, recalled, not looked
+2. Level energies recalled from memory. For the Ne I 2p5 3s - 2p5 3p and Ar I 3p5 4s - 3p5 4p
+   lines (Paschen 1s - 2p), the Hg I 6s6p 3P1 - 6s2 1S0 line and two Xe I 6s - 6p lines the
+   level energies below (cm-1, recalled, not looked
    up) give a Ritz wavelength; the row passes when it agrees within 2 units of its last digit.
-   The recalled Ne levels reproduce 19 rows, most to 0.00001 nm, which also checks the
-   recollection.
+   The recalled Ne levels reproduce 19 rows, most to 0.00001 nm, and the recalled Ar levels
+   25 rows to 0.00015 nm, which also checks the recollection.
 
 Air and vacuum are converted with the Edlen (1966) dispersion formula as implemented in
 specutils 1.9.1 (Debian python3-specutils 1.9.1-1; specutils.utils.wcs_utils.air_to_vac and
@@ -42,16 +43,22 @@ SEED = 13
 # The table's line remarks, written out in words in the note column (kept when rewriting).
 REMARKS = ("persistent", "complex", "unresolved double", "hazy")
 
-# Level energies in cm-1, from memory (values of Saloman and Sansonetti, J. Phys. Chem. Ref.
-# Data 33, 1113 (2004) for Ne I; the Hg I 6s6p 3P1 level), used only as a check.
+# Level energies in cm-1, from memory (for Ne I the values of Saloman and Sansonetti, J. Phys.
+# Chem. Ref. Data 33, 1113 (2004); for Ar I the 3p5 4s and 4p levels as tabulated by NIST),
+# used only as a check.
 LEVELS = {
     "Ne I": ({"2p10": 148257.7898, "2p9": 149657.0393, "2p8": 149824.2215, "2p7": 150121.5922,
               "2p6": 150315.8612, "2p5": 150772.1118, "2p4": 150858.5079, "2p3": 150917.4305,
               "2p2": 151038.4524, "2p1": 152970.7328},
              {"1s5": 134041.8400, "1s4": 134459.2871, "1s3": 134818.6405, "1s2": 135888.7173}),
+    "Ar I": ({"2p10": 104102.0990, "2p9": 105462.7596, "2p8": 105617.2700, "2p7": 106087.2598,
+              "2p6": 106237.5518, "2p5": 107054.2720, "2p4": 107131.7086, "2p3": 107289.7001,
+              "2p2": 107496.4166, "2p1": 108722.6194},
+             {"1s5": 93143.7600, "1s4": 93750.5978, "1s3": 94553.6652, "1s2": 95399.8276}),
     "Hg I": ({"6s6p 3P1": 39412.300}, {"6s2 1S0": 0.0}),
     # Xe I: only these four recalled levels are used; the other Xe I levels recalled
-    # (6p[5/2]2,3, 6p[3/2]1,2) missed the table rows by 0.03 to 0.07 nm and were left out.
+    # (6p[5/2]2,3, 6p[3/2]1,2) missed the table rows by 0.03 to 0.07 nm and were left out, as
+    # were recalled Hg I 6s6d 3D levels that reproduced no row.
     "Xe I": ({"6p[1/2]1": 77269.145, "6p[1/2]0": 80118.962},
              {"6s[3/2]2": 67067.547, "6s[3/2]1": 68045.156}),
 }
