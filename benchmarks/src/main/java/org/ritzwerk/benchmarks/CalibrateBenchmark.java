@@ -30,8 +30,10 @@ import org.ritzwerk.medium.Medium;
  * seed 7), beside a naive pairing search in the same run: every pair of detected peaks against
  * every pair of lamp lines hypothesises a straight-line solution, each scored by counting the
  * peaks that land within 3 pixels of a line (the brute-force form of what the matcher's local
- * triplets do). Lines: Ne I in air with relative intensities, from the built-in set lamp-ne-i
- * (Sansonetti and Martin 2005).
+ * triplets do). Lines: a realistic pattern of 59 Ne I air wavelengths with relative intensities,
+ * not reference values (an earlier version of the built-in set lamp-ne-i, attributed to
+ * Sansonetti and Martin 2005; 16 of these rows were later dropped from that set for want of an
+ * independent check).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)

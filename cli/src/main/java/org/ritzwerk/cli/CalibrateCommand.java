@@ -31,6 +31,7 @@ import picocli.CommandLine.Spec;
 /** {@code ritzwerk calibrate}: the pixel-to-wavelength solution of a spectrometer from a lamp spectrum. */
 @Command(name = "calibrate",
         mixinStandardHelpOptions = true,
+        header = "Find a spectrometer's pixel -> wavelength solution from a lamp spectrum.",
         description = {
             "Find the pixel -> wavelength solution of a spectrometer from a lamp spectrum (counts per",
             "pixel, a ritzwerk-spectrum file): detect the peaks (baseline, noise, S/N threshold,",
@@ -42,7 +43,8 @@ import picocli.CommandLine.Spec;
         },
         footer = {"", "Examples:",
             "  ritzwerk calibrate neon.csv --lamp \"Ne I\" --out calibration.json --plot residuals.png",
-            "  ritzwerk calibrate arc.csv --lamp \"Ne I,Ar I\" --from \"500 nm\" --to \"900 nm\" --dispersion-range 0.1,0.3",
+            "  ritzwerk calibrate arc.csv --lamp \"Ne I,Ar I\" --from \"500 nm\" --to \"900 nm\" \\",
+            "      --dispersion-range 0.1,0.3",
             "  ritzwerk calibrate sample.csv --apply calibration.json --out sample-nm.csv",
             "",
             "Lamps: UV and high voltage; see the README's safety section."})

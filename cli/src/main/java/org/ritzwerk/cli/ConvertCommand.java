@@ -27,6 +27,7 @@ import tools.jackson.databind.node.ObjectNode;
 /** {@code ritzwerk convert}: spectral positions and temperatures from one unit and medium to another. */
 @Command(name = "convert",
         mixinStandardHelpOptions = true,
+        header = "Convert wavelengths, wavenumbers, frequencies, photon energies and temperatures.",
         description = {
             "Convert wavelengths (vacuum or air), wavenumbers, frequencies, photon",
             "energies and temperatures.",

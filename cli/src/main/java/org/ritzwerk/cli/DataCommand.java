@@ -25,6 +25,7 @@ import picocli.CommandLine.Spec;
 /** {@code ritzwerk data}: the reference data sets, their sources, and checks of user files. */
 @Command(name = "data",
         mixinStandardHelpOptions = true,
+        header = "List, show and check the reference data sets.",
         description = {
             "List the reference data sets with their sources (built-in, from provider jars on the",
             "class path, and your own files given with --file), in order of precedence: your files,",
@@ -81,7 +82,7 @@ final class DataCommand implements Callable<Integer> {
     }
 
     /** {@code ritzwerk data show ID}. */
-    @Command(name = "show", mixinStandardHelpOptions = true,
+    @Command(name = "show", mixinStandardHelpOptions = true, header = "Print one data set.",
             description = {"Print one data set. For a line list, --format csv or json writes the set in the",
                 "ritzwerk-lines file format, ready to edit and use with --file."})
     static final class Show implements Callable<Integer> {
@@ -188,6 +189,7 @@ final class DataCommand implements Callable<Integer> {
 
     /** {@code ritzwerk data check FILE...}. */
     @Command(name = "check", mixinStandardHelpOptions = true,
+            header = "Check files in the ritzwerk-lines or ritzwerk-levels format.",
             description = {"Check files in the ritzwerk-lines or ritzwerk-levels format (CSV or JSON). One line per",
                 "good file; for a bad file, every problem with file, line, column and reason (exit code 2)."})
     static final class Check implements Callable<Integer> {

@@ -14,6 +14,7 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "demo",
         mixinStandardHelpOptions = true,
+        header = "Run the built-in example scenario and write its report, files and plots.",
         description = {
             "Run the built-in example scenario (invented; all data generated with fixed seeds): a lab",
             "calibrates its spectrometer with a neon lamp, identifies the lines of a H-D-He discharge",

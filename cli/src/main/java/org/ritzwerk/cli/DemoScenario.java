@@ -127,8 +127,8 @@ final class DemoScenario {
 
     private DispersionSolution calibrate(PixelGrid detector, Results results) throws IOException {
         out.println("1. Wavelength calibration with a neon lamp");
-        out.println("   The lab's compact grating spectrometer (4096 pixels, about 400-670 nm) looks at a neon");
-        out.println("   pen-ray lamp. Ritzwerk finds the peaks, pairs them with the built-in Ne I lamp lines");
+        out.println("   The lab's compact grating spectrometer (4096 pixels, about 400-670 nm) looks at a small neon");
+        out.println("   calibration lamp. Ritzwerk finds the peaks, pairs them with the built-in Ne I lamp lines");
         out.println("   without any starting guess, and fits the pixel -> wavelength polynomial.");
         LineList neon = (LineList) DataRegistry.builtIn().load("lamp-ne-i");
         double[] listed = new double[neon.size()];
@@ -149,7 +149,7 @@ final class DemoScenario {
         double[] counts = new double[PIXELS];
         Noise.apply(expected, 6, 20261202L, counts);
         Path lampFile = folder.resolve("neon-lamp.csv");
-        writeCounts(lampFile, counts, "neon pen-ray lamp on the Wrenfield Bench spectrometer (invented)");
+        writeCounts(lampFile, counts, "a small neon calibration lamp on the Wrenfield Bench spectrometer (invented)");
         results.files.add(lampFile);
 
         Peaks peaks = PeakFinder.defaults().find(counts);
@@ -456,7 +456,7 @@ final class DemoScenario {
                 boolean paired = ratio > 0 && (notation.equals("H I") || notation.equals("D I"));
                 if (!paired) {
                     builder.add(ion.species(), PhysicalConstants.C / table.frequency(i), 0,
-                            table.upperWeight(i) * table.einsteinA(i), notation + " " + table.seriesName(i));
+                            table.upperWeight(i) * table.einsteinA(i), notation + " " + table.lineName(i));
                 }
             }
         }
@@ -470,11 +470,11 @@ final class DemoScenario {
                 double ld = j < 0 ? Double.NaN : PhysicalConstants.C / deuterium.frequency(j);
                 if (j >= 0 && Math.abs(lh - ld) * 1e9 < blendWithin && !resolvedUpper.contains(hydrogen.upperN(i))) {
                     builder.add(h, (lh + ratio * ld) / (1 + ratio), 0, strength,
-                            "H I+D I " + hydrogen.seriesName(i));
+                            "H I+D I " + hydrogen.lineName(i));
                 } else {
-                    builder.add(h, lh, 0, strength, "H I " + hydrogen.seriesName(i));
+                    builder.add(h, lh, 0, strength, "H I " + hydrogen.lineName(i));
                     if (j >= 0) {
-                        builder.add(d, ld, 0, strength * ratio, "D I " + deuterium.seriesName(j));
+                        builder.add(d, ld, 0, strength * ratio, "D I " + deuterium.lineName(j));
                     }
                 }
             }

@@ -30,6 +30,7 @@ import picocli.CommandLine.Spec;
 /** {@code ritzwerk identify}: which lines explain the peaks of a measured spectrum. */
 @Command(name = "identify",
         mixinStandardHelpOptions = true,
+        header = "Match measured peaks to candidate spectral lines.",
         description = {
             "Match measured peaks (a ritzwerk-peaks file) to candidate lines: one-electron ions",
             "computed by the engine (--species) and line lists from the data sets or your files",

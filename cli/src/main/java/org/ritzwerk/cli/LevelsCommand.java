@@ -20,6 +20,7 @@ import picocli.CommandLine.Spec;
 /** {@code ritzwerk levels}: energy levels of one-electron ions and alkali atoms. */
 @Command(name = "levels",
         mixinStandardHelpOptions = true,
+        header = "Energy levels of one-electron ions and alkali atoms.",
         description = {
             "Energy levels of one-electron ions (H I, D I, He II, C VI, ... U XCII), in cm-1 above the",
             "ground state, under a chosen model: bohr (reduced mass), dirac (fine structure and",

@@ -23,9 +23,10 @@ import picocli.CommandLine.Spec;
 /** {@code ritzwerk lines}: electric-dipole lines of one-electron ions and alkali atoms, with rates. */
 @Command(name = "lines",
         mixinStandardHelpOptions = true,
+        header = "Electric-dipole lines of one-electron ions and alkali atoms, with their rates.",
         description = {
             "Electric-dipole lines of one-electron ions between two spectral positions, with",
-            "Einstein A, oscillator strength and series name: fine-structure components, or",
+            "Einstein A, oscillator strength and line name: fine-structure components, or",
             "n -> n' multiplets with --multiplets. --from and --to take any unit; a wavelength",
             "without a medium is in vacuum (write \"400 nm air\" for air). Also the neutral alkali",
             "atoms (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133): lines between their levels (n <= --n-max,",
@@ -37,7 +38,9 @@ import picocli.CommandLine.Spec;
             "  ritzwerk lines --species \"C VI\" --from \"1 nm\" --to \"5 nm\" --format json",
             "  ritzwerk lines --species \"Rb-87 I\" --from 10GHz --to 20GHz --n-max 60",
             "  ritzwerk lines --species \"Rb-87 I\" --transition \"50d5/2 -> 51p3/2\"",
-            "  ritzwerk lines --species \"Rb-87 I\" --ladder \"5s1/2,5p3/2,60s1/2\""})
+            "  ritzwerk lines --species \"Rb-87 I\" --ladder \"5s1/2,5p3/2,60s1/2\"",
+            "", "Lasers (--ladder) can injure eyes and skin: read the Safety section of",
+            "README.md first."})
 final class LinesCommand implements Callable<Integer> {
 
     @Spec
@@ -147,7 +150,7 @@ final class LinesCommand implements Callable<Integer> {
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),
                 Table.Column.text("lower", "lower"),
-                Table.Column.text("series", "series"),
+                Table.Column.text("line", "line"),
                 new Table.Column(air ? "air_wavelength_nm" : "vacuum_wavelength_nm",
                         air ? "air nm" : "vacuum nm", value -> String.format(java.util.Locale.ROOT, "%.6f", value)),
                 new Table.Column(air ? "vacuum_wavelength_nm" : "air_wavelength_nm",
@@ -177,7 +180,7 @@ final class LinesCommand implements Callable<Integer> {
             int i = line.index();
             double vacuumMetres = PhysicalConstants.C / t.frequency(i);
             double airMetres = airWavelength(vacuumMetres);
-            output.add(line.species(), t.upperLabel(i), t.lowerLabel(i), t.seriesName(i),
+            output.add(line.species(), t.upperLabel(i), t.lowerLabel(i), t.lineName(i),
                     (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
                     t.frequency(i) / PhysicalConstants.C / 100, t.frequency(i), t.einsteinA(i),
                     t.oscillatorStrength(i), t.lineStrength(i) / (atomicDipole * atomicDipole), line.model());

@@ -24,6 +24,9 @@ public final class Main {
      */
     public static int run(PrintWriter out, PrintWriter err, String... args) {
         CommandLine commandLine = new CommandLine(new RitzwerkCommand());
+        // The help texts are written for 100 columns; picocli's default of 80 broke their lines
+        // mid-phrase.
+        commandLine.setUsageHelpWidth(100);
         commandLine.setOut(out);
         commandLine.setErr(err);
         commandLine.setExecutionExceptionHandler(new ErrorReporter());

@@ -28,6 +28,10 @@ final class Plots {
     record Label(double x, String text) {
     }
 
+    /** Height of the line chart in pixels, and a lower bound of its data area's height. */
+    private static final int CHART_PIXELS = 700;
+    private static final double PLOT_PIXELS = 580;
+
     private Plots() {
     }
 
@@ -76,6 +80,7 @@ final class Plots {
         plot.setDomainGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
         plot.setRangeGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
         Font font = new Font(Font.SANS_SERIF, Font.PLAIN, 11);
+        double upper = axisTop(x, y, yMax, labels, font);
         for (Label label : labels) {
             int i = nearest(x, label.x());
             XYTextAnnotation text = new XYTextAnnotation(label.text(), label.x(), y[i] + 0.03 * yMax);
@@ -85,10 +90,10 @@ final class Plots {
             text.setRotationAnchor(TextAnchor.CENTER_LEFT);
             plot.addAnnotation(text);
         }
-        yAxis.setUpperBound(yMax * 1.35 + (yMax == 0 ? 1 : 0));
+        yAxis.setUpperBound(upper);
         JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, false);
         chart.setBackgroundPaint(Color.WHITE);
-        ChartUtils.saveChartAsPNG(file.toFile(), chart, 1400, 700);
+        ChartUtils.saveChartAsPNG(file.toFile(), chart, 1400, CHART_PIXELS);
     }
 
     /**
@@ -138,6 +143,23 @@ final class Plots {
         JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, true);
         chart.setBackgroundPaint(Color.WHITE);
         ChartUtils.saveChartAsPNG(file.toFile(), chart, 1200, 600);
+    }
+
+    /**
+     * The top of the y axis so that every label, standing upright from just above its line,
+     * ends inside the data area: the label's base plus its length in pixels (the data area is at
+     * least PLOT_PIXELS high) scaled to data units, and at least 1.35 times the highest value.
+     */
+    static double axisTop(double[] x, double[] y, double yMax, List<Label> labels, Font font) {
+        java.awt.FontMetrics metrics = new java.awt.image.BufferedImage(1, 1, java.awt.image.BufferedImage.TYPE_INT_RGB)
+                .createGraphics().getFontMetrics(font);
+        double upper = yMax * 1.35 + (yMax == 0 ? 1 : 0);
+        for (Label label : labels) {
+            double base = y[nearest(x, label.x())] + 0.03 * yMax;
+            double share = (metrics.stringWidth(label.text()) + 8.0) / PLOT_PIXELS;
+            upper = Math.max(upper, base / (1 - Math.min(share, 0.8)));
+        }
+        return upper;
     }
 
     private static int nearest(double[] x, double at) {

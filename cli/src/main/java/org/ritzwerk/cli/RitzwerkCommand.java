@@ -13,6 +13,8 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = RitzwerkCommand.Version.class,
         description = "Atomic energy levels and spectral lines for instrument, sensor and simulation work.",
+        footer = {"", "Safety: lamps, discharge tubes, plasma sources and lasers can hurt. Read the",
+            "Safety section of README.md and follow your local rules before using them."},
         subcommands = {ConvertCommand.class, LevelsCommand.class, LinesCommand.class, IdentifyCommand.class,
             DataCommand.class, SynthCommand.class, CalibrateCommand.class, DemoCommand.class,
             CommandLine.HelpCommand.class})

@@ -38,6 +38,7 @@ import tools.jackson.databind.node.ObjectNode;
 /** {@code ritzwerk synth}: a synthetic emission spectrum of one-electron ions with known truth. */
 @Command(name = "synth",
         mixinStandardHelpOptions = true,
+        header = "Render a synthetic emission spectrum.",
         description = {
             "Render a synthetic emission spectrum: the n -> n' lines of one-electron ions (and the lines of",
             "alkali atoms, and line lists with --lines), upper",
@@ -48,8 +49,10 @@ import tools.jackson.databind.node.ObjectNode;
             "lines that went in."
         },
         footer = {"", "Examples:",
-            "  ritzwerk synth --species \"H I\" --from \"640 nm air\" --to \"670 nm air\" --medium air --temperature 9000",
-            "  ritzwerk synth --species \"H I,He II\" --from \"380 nm air\" --to \"700 nm air\" --medium air --temperature 20000 \\",
+            "  ritzwerk synth --species \"H I\" --from \"640 nm air\" --to \"670 nm air\" --medium air \\",
+            "      --temperature 9000",
+            "  ritzwerk synth --species \"H I,He II\" --from \"380 nm air\" --to \"700 nm air\" --medium air \\",
+            "      --temperature 20000 \\",
             "      --resolving-power 5000 --pixels 20000 --seed 7 --out scene.csv --truth scene-lines.csv"})
 final class SynthCommand implements Callable<Integer> {
 

@@ -139,6 +139,29 @@ class CliTest {
     }
 
     @Test
+    void theCommandListGivesEachCommandAWholePhraseAndPointsToSafety() {
+        String help = run("--help").out();
+        String commands = help.substring(help.indexOf("Commands:"), help.indexOf("Safety:"));
+        // Each command's entry (possibly wrapped) ends a sentence: no description cut mid-phrase.
+        for (String entry : commands.strip().split("\\R(?=  [a-z])")) {
+            if (!entry.startsWith("Commands:")) {
+                assertTrue(entry.strip().endsWith("."), "cut mid-phrase: " + entry);
+            }
+        }
+        assertTrue(help.replaceAll("\\s+", " ").contains("Read the Safety section of README.md"), help);
+        String data = run("data", "--help").out();
+        String dataCommands = data.substring(data.indexOf("Commands:"), data.indexOf("Examples:"));
+        for (String entry : dataCommands.strip().split("\\R(?=  [a-z])")) {
+            if (!entry.startsWith("Commands:")) {
+                assertTrue(entry.strip().endsWith("."), "cut mid-phrase: " + entry);
+            }
+        }
+        String lines = run("lines", "--help").out();
+        assertTrue(lines.replaceAll("\\s+", " ").contains("Lasers (--ladder) can injure eyes and skin: read the Safety section of README.md"),
+                lines);
+    }
+
+    @Test
     void debugAddsTheStackTraceAndOnlyThen() {
         Run plain = run("convert", "656.28 furlongs", "--to", "nm vacuum");
         assertEquals(2, plain.code());

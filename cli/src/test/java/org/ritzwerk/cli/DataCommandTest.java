@@ -31,7 +31,7 @@ class DataCommandTest {
                 neon = true;
                 assertEquals("lamp-lines", node.get("kind").asString());
                 assertEquals("built-in", node.get("origin").asString());
-                assertTrue(node.get("source").asString().startsWith("published: J. E. Sansonetti and W. C. Martin"));
+                assertTrue(node.get("source").asString().startsWith("from memory: J. E. Sansonetti and W. C. Martin"));
             }
         }
         assertTrue(neon);

@@ -23,12 +23,16 @@ class DemoTest {
         DemoScenario.Results r = new DemoScenario(dir.resolve("out"), new PrintWriter(text), 2).run();
         String report = text.toString();
         assertTrue(report.contains("an invented scenario"), report);
+        // The lamp is described generically, never by a maker's trademark.
+        assertTrue(report.replaceAll("\\s+", " ").contains("a small neon calibration lamp"), report);
+        assertTrue(!report.toLowerCase(java.util.Locale.ROOT).contains("pen-ray"), report);
+        assertTrue(Files.readString(dir.resolve("out").resolve("neon-lamp.csv")).contains("a small neon calibration lamp"));
         // Calibration: within a tenth of a pixel of the invented dispersion everywhere.
         assertTrue(r.calibrationWorstErrorPixels < 0.1, report);
         assertTrue(r.calibrationLinesUsed >= 15, report);
         // Identification: Balmer lines of H and D, He II lines of the core.
         for (String line : new String[] {"H I Balmer alpha", "D I Balmer alpha", "H I+D I Balmer beta",
-            "H I+D I Balmer gamma", "He II Paschen alpha"}) {
+            "H I+D I Balmer gamma", "He II 4686 (4-3)"}) {
             assertTrue(r.identified.contains(line), line + " in " + r.identified);
         }
         // Velocity within 3 of its standard uncertainties of the invented 6 km/s.

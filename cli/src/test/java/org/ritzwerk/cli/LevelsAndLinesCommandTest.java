@@ -63,7 +63,7 @@ class LevelsAndLinesCommandTest {
                 "660 nm air", "--multiplets", "--format", "json"));
         assertEquals(1, lines.size());
         JsonNode alpha = lines.get(0);
-        assertEquals("Balmer alpha", alpha.get("series").asString());
+        assertEquals("Balmer alpha", alpha.get("line").asString());
         assertEquals("n=3", alpha.get("upper").asString());
         assertEquals("n=2", alpha.get("lower").asString());
         LineTable expected = HydrogenLikeLines.of(HydrogenLikeModel.of(
@@ -91,11 +91,15 @@ class LevelsAndLinesCommandTest {
                 "--multiplets", "--n-max", "12", "--min-a", "1e5", "--format", "csv");
         assertEquals(0, csv.code(), csv.err());
         String[] rows = csv.out().strip().split("\\R");
-        assertTrue(rows[0].startsWith("species,upper,lower,series,vacuum_wavelength_nm,air_wavelength_nm"), rows[0]);
+        assertTrue(rows[0].startsWith("species,upper,lower,line,vacuum_wavelength_nm,air_wavelength_nm"), rows[0]);
         CliTest.Run text = CliTest.run("lines", "--species", "H I,He II", "--from", "400 nm air", "--to", "700 nm air",
                 "--multiplets", "--n-max", "12", "--min-a", "1e5");
         assertEquals(rows.length, text.out().strip().split("\\R").length);
         assertTrue(text.out().contains("He II") && text.out().contains("Balmer alpha"), text.out());
+        // He II is named by wavelength and shells (He II 4686, the 4-3 line), never by hydrogen's series.
+        assertTrue(csv.out().contains("\"He II\",n=4,n=3,\"4686 (4-3)\","), csv.out());
+        assertTrue(csv.out().lines().filter(row -> row.startsWith("\"He II\""))
+                .noneMatch(row -> row.matches(".*(Lyman|Balmer|Paschen|Brackett|Pfund|Humphreys).*")), csv.out());
     }
 
     @Test

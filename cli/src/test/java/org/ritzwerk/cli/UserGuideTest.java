@@ -26,7 +26,8 @@ class UserGuideTest {
                 NuclearData.builtIn().nucleus(Species.parse("H")), Tier.QED)).lifetime(2, 1, 1);
 
         assertEquals(1, table.size());
-        assertEquals("Paschen alpha", table.seriesName(0));
+        assertEquals("4686 (4-3)", table.lineName(0));                 // He II 4686, the 4-3 line
+        assertEquals(java.util.Optional.of("Fowler"), table.series(0));
         assertEquals(639.62, table.frequency(0) / 1e12, 0.01);
         assertEquals(1.596e-9, tau2p, 1e-12);
     }

@@ -57,7 +57,9 @@ class UserGuideTest {
         LineTable table = lines.multiplets(10, to, from);
 
         assertEquals(1, table.size());
-        assertEquals("Paschen alpha", table.seriesName(0));            // He II 4 -> 3 at 468.6 nm
+        assertEquals("4686 (4-3)", table.lineName(0));                // He II 4686, the 4-3 line
+        assertEquals("4-3", table.shells(0));
+        assertEquals(java.util.Optional.of("Fowler"), table.series(0)); // He II n -> 3
         double airNm = Medium.air().fromVacuum(PhysicalConstants.C / table.frequency(0)) * 1e9;
         assertEquals(468.57, airNm, 0.01);
         double einsteinA = table.einsteinA(0);                         // s^-1, Z^4 times hydrogen's

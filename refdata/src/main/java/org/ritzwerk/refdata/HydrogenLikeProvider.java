@@ -115,7 +115,7 @@ public final class HydrogenLikeProvider implements ReferenceDataProvider {
                 "vacuum wavelengths; fine-structure components; Einstein A in s^-1");
         for (int i = 0; i < table.size(); i++) {
             builder.add(species, PhysicalConstants.C / table.frequency(i) * 1e9, Double.NaN, Double.NaN, null,
-                    table.einsteinA(i), table.lowerLabel(i), table.upperLabel(i), table.seriesName(i));
+                    table.einsteinA(i), table.lowerLabel(i), table.upperLabel(i), table.lineName(i));
         }
         return builder.build();
     }

@@ -16,9 +16,11 @@ import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
 
 /**
- * Built-in calibration-lamp line sets in air (Hg I, Ne I, Ar I, Kr I, Xe I) from the NIST
- * Handbook of Basic Atomic Spectroscopic Data (Sansonetti &amp; Martin 2005), stored in the
- * project's own line-list format under {@code lamps/} with the full citation in each header.
+ * Built-in calibration-lamp line sets in air (Hg I, Ne I, Ar I, Kr I, Xe I) with the wavelengths
+ * and intensities of the strong-lines tables of the NIST Handbook of Basic Atomic Spectroscopic
+ * Data (Sansonetti &amp; Martin 2005), marked from memory, each row carrying the independent check
+ * it passed (see {@code lamps/README.md}); stored in the project's own line-list format under
+ * {@code lamps/} with the full citation in each header.
  * Users should check their own lamp's data. Thread-safe; files are read when a set is loaded.
  */
 public final class LampProvider implements ReferenceDataProvider {

@@ -85,7 +85,7 @@ public final class HydrogenLikeLines {
                 addComponents(nU, nL, minHertz, maxHertz, lines);
             }
         }
-        return LineTable.sorted(lines);
+        return LineTable.sorted(lines, model.nucleus().z());
     }
 
     /**
@@ -144,7 +144,7 @@ public final class HydrogenLikeLines {
                 }
             }
         }
-        return LineTable.sorted(lines);
+        return LineTable.sorted(lines, model.nucleus().z());
     }
 
     /**
@@ -177,7 +177,7 @@ public final class HydrogenLikeLines {
                 }
             }
         }
-        return LineTable.sorted(lines);
+        return LineTable.sorted(lines, model.nucleus().z());
     }
 
     /**

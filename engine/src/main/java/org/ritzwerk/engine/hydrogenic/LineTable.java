@@ -1,13 +1,16 @@
 package org.ritzwerk.engine.hydrogenic;
 
 import java.util.Arrays;
+import java.util.Optional;
+import org.ritzwerk.constants.PhysicalConstants;
 
 /**
  * Electric-dipole lines of one ion in columns, sorted by increasing frequency: the upper and
  * lower level (l and j are -1 for a multiplet, which blends a whole n -> n' transition), the
  * vacuum frequency (Hz), the line strength S (C^2 m^2), the Einstein A coefficient (s^-1) and the
- * absorption oscillator strength f, with the statistical weights they refer to. Immutable and
- * thread-safe.
+ * absorption oscillator strength f, with the statistical weights they refer to. Lines are named
+ * as {@link Notation} describes: hydrogen by its series ({@code "Balmer alpha"}), every other
+ * one-electron ion by wavelength and shells ({@code "4686 (4-3)"}). Immutable and thread-safe.
  */
 public final class LineTable {
 
@@ -17,10 +20,13 @@ public final class LineTable {
     private final double[] strength;
     private final double[] einsteinA;
     private final double[] oscillatorStrength;
+    /** Nuclear charge of the ion, for the line names. */
+    private final int z;
 
     /** Columns packed as levels (n, l, 2j) into one int array of 3 per line. */
-    LineTable(int[] upper, int[] lower, double[] frequency, double[] strength, double[] einsteinA,
+    LineTable(int z, int[] upper, int[] lower, double[] frequency, double[] strength, double[] einsteinA,
             double[] oscillatorStrength) {
+        this.z = z;
         this.upper = upper;
         this.lower = lower;
         this.frequency = frequency;
@@ -29,8 +35,8 @@ public final class LineTable {
         this.oscillatorStrength = oscillatorStrength;
     }
 
-    /** Sorts a filled builder's columns by frequency and freezes them. */
-    static LineTable sorted(Builder builder) {
+    /** Sorts a filled builder's columns by frequency and freezes them, for an ion of nuclear charge z. */
+    static LineTable sorted(Builder builder, int z) {
         int size = builder.size;
         Integer[] order = new Integer[size];
         for (int i = 0; i < size; i++) {
@@ -52,7 +58,7 @@ public final class LineTable {
             a[k] = builder.einsteinA[i];
             f[k] = builder.oscillatorStrength[i];
         }
-        return new LineTable(upper, lower, frequency, strength, a, f);
+        return new LineTable(z, upper, lower, frequency, strength, a, f);
     }
 
     /** @return the number of lines */
@@ -134,9 +140,28 @@ public final class LineTable {
         return Notation.level(lowerN(i), lowerL(i), lowerTwoJ(i), -1);
     }
 
-    /** @param i index @return the series name, e.g. {@code "Balmer alpha"} or {@code "109 alpha"} */
-    public String seriesName(int i) {
-        return Notation.line(upperN(i), lowerN(i));
+    /**
+     * @param i index
+     * @return the line's name after the spectrum symbol: {@code "Balmer alpha"} or
+     *         {@code "109 alpha"} for hydrogen, {@code "4686 (4-3)"} for He II and other ions
+     *         (see {@link Notation#line(int, int, int, double)})
+     */
+    public String lineName(int i) {
+        return Notation.line(z, upperN(i), lowerN(i), PhysicalConstants.C / frequency[i]);
+    }
+
+    /** @param i index @return the two shells, upper first, e.g. {@code "4-3"} */
+    public String shells(int i) {
+        return Notation.shells(upperN(i), lowerN(i));
+    }
+
+    /**
+     * @param i index
+     * @return the series name where spectroscopists have one ({@code "Balmer"}; He II
+     *         {@code "Fowler"} or {@code "Pickering"}), otherwise empty
+     */
+    public Optional<String> series(int i) {
+        return Notation.series(z, lowerN(i));
     }
 
     /** Growable columns, filled by the line generator. */

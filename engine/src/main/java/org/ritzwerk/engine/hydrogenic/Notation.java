@@ -1,8 +1,16 @@
 package org.ritzwerk.engine.hydrogenic;
 
+import java.util.Locale;
+import java.util.Optional;
+import org.ritzwerk.medium.Medium;
+
 /**
  * Spectroscopic labels and series names of one-electron levels and lines (common practice).
- * Stateless.
+ * Hydrogen (H I, D I, T I; nuclear charge 1) keeps its series names (Lyman, Balmer, Paschen,
+ * Brackett, Pfund, Humphreys) and line names such as {@code "Balmer alpha"}. Every other
+ * one-electron ion is named as spectroscopists name it: by its wavelength and its two shells,
+ * e.g. {@code "4686 (4-3)"} for the He II line known as He II 4686 or the 4-3 line; He II lines
+ * ending on n = 3 form the Fowler series and those ending on n = 4 the Pickering series. Stateless.
  */
 public final class Notation {
 
@@ -10,6 +18,11 @@ public final class Notation {
     private static final String LETTERS = "spdfghiklmnoqrtuvwxyz";
     private static final String[] SERIES = {"Lyman", "Balmer", "Paschen", "Brackett", "Pfund", "Humphreys"};
     private static final String[] GREEK = {"alpha", "beta", "gamma", "delta", "epsilon"};
+    /** Between these vacuum wavelengths (m) lines are named by air wavelength, elsewhere by vacuum. */
+    private static final double AIR_FROM_METRES = 200e-9;
+    private static final double AIR_UP_TO_METRES = 2e-6;
+    /** Beyond this vacuum wavelength (m) a line is named by its shells only. */
+    private static final double WAVELENGTH_NAME_UP_TO_METRES = 10e-6;
 
     private Notation() {
     }
@@ -54,12 +67,84 @@ public final class Notation {
 
     /**
      * @param nUpper upper principal quantum number
+     * @param nLower lower principal quantum number
+     * @return the two shells, e.g. {@code "4-3"} (upper first)
+     */
+    public static String shells(int nUpper, int nLower) {
+        return nUpper + "-" + nLower;
+    }
+
+    /**
+     * The series a line belongs to, where spectroscopists have a name for it.
+     *
+     * @param z      nuclear charge of the one-electron ion (1 for H, D, T; 2 for He II)
+     * @param nLower lower principal quantum number
+     * @return hydrogen: Lyman, Balmer, Paschen, Brackett, Pfund or Humphreys for lower n 1 to 6;
+     *         He II: Fowler for lower n 3, Pickering for lower n 4; otherwise empty
+     */
+    public static Optional<String> series(int z, int nLower) {
+        if (z == 1 && nLower >= 1 && nLower <= SERIES.length) {
+            return Optional.of(SERIES[nLower - 1]);
+        }
+        if (z == 2 && nLower == 3) {
+            return Optional.of("Fowler");
+        }
+        if (z == 2 && nLower == 4) {
+            return Optional.of("Pickering");
+        }
+        return Optional.empty();
+    }
+
+    /**
+     * The name of a line as spectroscopists write it after the spectrum symbol.
+     *
+     * @param z              nuclear charge of the one-electron ion (1 for H, D, T)
+     * @param nUpper         upper principal quantum number
+     * @param nLower         lower principal quantum number, less than nUpper
+     * @param vacuumMetres   the line's vacuum wavelength in m (used when z is not 1)
+     * @return hydrogen: {@link #hydrogenLine(int, int)} ({@code "Balmer alpha"}); any other ion:
+     *         the wavelength label and the shells, {@code "4686 (4-3)"}, or the shells alone
+     *         ({@code "12-11"}) beyond 10 um
+     */
+    public static String line(int z, int nUpper, int nLower, double vacuumMetres) {
+        if (z == 1) {
+            return hydrogenLine(nUpper, nLower);
+        }
+        if (!(vacuumMetres > 0) || vacuumMetres > WAVELENGTH_NAME_UP_TO_METRES) {
+            return shells(nUpper, nLower);
+        }
+        return wavelengthLabel(vacuumMetres) + " (" + shells(nUpper, nLower) + ")";
+    }
+
+    /**
+     * The wavelength by which a line is named (common practice in spectroscopy and astronomy):
+     * in angstrom, in standard air ({@link Medium#air()}) from 200 nm to 2 um and in vacuum
+     * outside that range, rounded to a whole angstrom from 1000 A on and to 0.1 A below. Some traditional names
+     * truncate instead (He II 5411 for 5411.5 A in air); this method always rounds.
+     *
+     * @param vacuumMetres vacuum wavelength in m, positive and finite
+     * @return e.g. {@code "4686"} for 468.57 nm in air, {@code "1640"}, {@code "303.8"}
+     */
+    public static String wavelengthLabel(double vacuumMetres) {
+        if (!(vacuumMetres > 0) || Double.isInfinite(vacuumMetres)) {
+            throw new IllegalArgumentException("vacuum wavelength must be positive and finite, got " + vacuumMetres
+                    + " m");
+        }
+        double metres = vacuumMetres >= AIR_FROM_METRES && vacuumMetres <= AIR_UP_TO_METRES
+                ? Medium.air().fromVacuum(vacuumMetres) : vacuumMetres;
+        double angstrom = metres * 1e10;
+        return angstrom >= 1000 ? Long.toString(Math.round(angstrom))
+                : String.format(Locale.ROOT, "%.1f", angstrom);
+    }
+
+    /**
+     * @param nUpper upper principal quantum number
      * @param nLower lower principal quantum number, less than nUpper
-     * @return the series line name for lower levels 1 to 6 and steps of 1 to 5
+     * @return the hydrogen line name for lower levels 1 to 6 and steps of 1 to 5
      *         ({@code "Balmer alpha"}, {@code "Lyman 7-1"} beyond epsilon), otherwise the
      *         recombination-line notation {@code "109 alpha"} (lower n and step)
      */
-    public static String line(int nUpper, int nLower) {
+    public static String hydrogenLine(int nUpper, int nLower) {
         int step = nUpper - nLower;
         if (step < 1) {
             return "n=" + nUpper + "-" + nLower;

@@ -204,7 +204,7 @@ public final class Candidates {
                     strength *= Math.exp(-(upper - ground) / (PhysicalConstants.K * excitationTemperature));
                 }
                 String label = (components ? table.upperLabel(i) + " - " + table.lowerLabel(i) + " " : "")
-                        + table.seriesName(i);
+                        + table.lineName(i);
                 double vacuum = PhysicalConstants.C / table.frequency(i);
                 if (components) {
                     b.add(species, vacuum, 0, strength, label);

@@ -688,7 +688,7 @@ public final class Scene {
                 if (stark && balmer != null && model.nucleus().z() == 1) {
                     lorentz += BalmerStark.fwhmNanometres(balmer, electronDensity) * axis / (vacuum * 1e9);
                 }
-                out.add(axis, photons, gauss, lorentz, ion.species.notation() + " " + table.seriesName(i));
+                out.add(axis, photons, gauss, lorentz, ion.species.notation() + " " + table.lineName(i));
             }
         }
 

@@ -15,9 +15,10 @@ class CalibrationLampMatcherTest {
     static final LampLines NEON = LampLines.of(LampScene.NEON_NM, LampScene.NEON_INTENSITY, null, Medium.air());
 
     /**
-     * Ar I, air, nm, and relative intensities, copied from
-     * refdata/src/main/resources/org/ritzwerk/refdata/lamps/lamp-ar-i.csv (Sansonetti and Martin,
-     * J. Phys. Chem. Ref. Data 34, 1559 (2005), table of strong Ar lines).
+     * Ar I, air, nm, and relative intensities: a realistic pattern, not reference values (the 48
+     * rows of an earlier version of the built-in lamp-ar-i.csv, attributed to Sansonetti and Martin,
+     * J. Phys. Chem. Ref. Data 34, 1559 (2005); 15 were later dropped from that file for want of an
+     * independent check, see refdata/src/main/resources/org/ritzwerk/refdata/lamps/README.md).
      */
     static final LampLines ARGON = LampLines.of(new double[] {
         415.8590, 419.0713, 419.8317, 420.0674, 425.9362, 426.6286, 427.2169, 430.0101, 433.3561, 451.0733, 603.2127,

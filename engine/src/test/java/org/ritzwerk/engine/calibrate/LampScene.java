@@ -13,10 +13,13 @@ import org.ritzwerk.engine.synth.PixelGrid;
  * into the pixels (each pixel receives the flux between its edges), a smooth baseline, a few
  * contaminating lines that are not in the lamp list, then Poisson and read noise.
  *
- * <p>The lamp lines are Ne I air wavelengths and relative intensities copied from
- * refdata/src/main/resources/org/ritzwerk/refdata/lamps/lamp-ne-i.csv (Sansonetti and Martin,
- * J. Phys. Chem. Ref. Data 34, 1559 (2005), table of strong Ne lines). The instrument, baseline,
- * line strengths and contaminants are invented for the test.
+ * <p>The lamp lines are a realistic pattern, not reference values: the 59 Ne I air wavelengths
+ * and relative intensities of an earlier version of the built-in lamp-ne-i.csv (attributed to
+ * Sansonetti and Martin, J. Phys. Chem. Ref. Data 34, 1559 (2005)); 16 of them were later
+ * dropped from that file because no independent check supports them (see
+ * refdata/src/main/resources/org/ritzwerk/refdata/lamps/README.md). The tests here check that the
+ * invented dispersion is recovered from this pattern, which needs realistic spacings and blends,
+ * not exact wavelengths. The instrument, baseline, line strengths and contaminants are invented.
  */
 final class LampScene {
 

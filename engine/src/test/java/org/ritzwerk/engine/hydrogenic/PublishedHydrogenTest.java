@@ -120,9 +120,9 @@ class PublishedHydrogenTest {
     private static void assertMultiplet(LineTable table, int nU, int nL, double a, double f) {
         for (int i = 0; i < table.size(); i++) {
             if (table.upperN(i) == nU && table.lowerN(i) == nL) {
-                assertEquals(a, table.einsteinA(i), 1e-3 * a, table.seriesName(i) + " A");
+                assertEquals(a, table.einsteinA(i), 1e-3 * a, table.lineName(i) + " A");
                 if (!Double.isNaN(f)) {
-                    assertEquals(f, table.oscillatorStrength(i), 1e-3 * f, table.seriesName(i) + " f");
+                    assertEquals(f, table.oscillatorStrength(i), 1e-3 * f, table.lineName(i) + " f");
                 }
                 return;
             }

@@ -37,7 +37,7 @@ final class Scenes {
                 .multiplets(nMax, PhysicalConstants.C / 1000e-9, PhysicalConstants.C / 350e-9);
         for (int i = 0; i < table.size(); i++) {
             builder.add(species, PhysicalConstants.C / table.frequency(i), 0,
-                    table.upperWeight(i) * table.einsteinA(i), species.notation() + " " + table.seriesName(i));
+                    table.upperWeight(i) * table.einsteinA(i), species.notation() + " " + table.lineName(i));
         }
     }
 
