@@ -11,12 +11,11 @@ import java.util.Locale;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
-import org.ritzwerk.engine.calibrate.DispersionFit;
+import org.ritzwerk.engine.calibrate.Calibration;
+import org.ritzwerk.engine.calibrate.CalibrationProblem;
+import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
-import org.ritzwerk.engine.calibrate.IdentifierRefinement;
-import org.ritzwerk.engine.calibrate.LampLines;
-import org.ritzwerk.engine.calibrate.LampMatch;
-import org.ritzwerk.engine.calibrate.LampMatcher;
+import org.ritzwerk.engine.calibrate.LampSet;
 import org.ritzwerk.engine.calibrate.PeakFinder;
 import org.ritzwerk.engine.calibrate.Peaks;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
@@ -131,17 +130,8 @@ final class DemoScenario {
         out.println("   calibration lamp. Ritzwerk finds the peaks, pairs them with the built-in Ne I lamp lines");
         out.println("   without any starting guess, and fits the pixel -> wavelength polynomial.");
         LineList neon = (LineList) DataRegistry.builtIn().load("lamp-ne-i");
-        double[] listed = new double[neon.size()];
-        double[] intensity = new double[neon.size()];
-        for (int i = 0; i < neon.size(); i++) {
-            listed[i] = neon.position(i);
-            intensity[i] = neon.intensity(i).orElse(0);
-        }
-        double[] vacuum = LineSets.wavelengths(neon, Unit.NANOMETRE, Medium.vacuum());
-        double neonMass = NuclearData.builtIn().nucleus(Species.parse("Ne I")).massKg()
-                + 10 * PhysicalConstants.ELECTRON_MASS.value();
         double[] expected = Scene.builder(detector).medium(Medium.air()).temperature(350)
-                .lineList("Ne I", vacuum, intensity, neonMass).instrument(Instrument.ofFwhm(RESPONSE_FWHM))
+                .lineList(neon, NuclearData.builtIn()::nucleus).instrument(Instrument.ofFwhm(RESPONSE_FWHM))
                 .peakCounts(30_000).build().render(threads).expectedCounts();
         for (int p = 0; p < PIXELS; p++) {
             expected[p] += 120; // dark level and stray light (invented)
@@ -152,16 +142,10 @@ final class DemoScenario {
         writeCounts(lampFile, counts, "a small neon calibration lamp on the Wrenfield Bench spectrometer (invented)");
         results.files.add(lampFile);
 
-        Peaks peaks = PeakFinder.defaults().find(counts);
-        LampLines lines = LampLines.of(listed, intensity, null, Medium.air());
-        Species[] species = new Species[neon.size()];
-        for (int i = 0; i < species.length; i++) {
-            species[i] = neon.species(i);
-        }
-        LampMatch match = LampMatcher.defaults().match(peaks, lines);
-        DispersionFit fit = DispersionFit.automatic(3);
-        match = IdentifierRefinement.refine(match, match.fit(fit), peaks, lines, species, 3);
-        DispersionSolution solution = match.fit(fit);
+        Calibration calibration = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts)
+                .lamp(LampSet.of(List.of(neon), Medium.air())).source("neon-lamp.csv").build());
+        Peaks peaks = calibration.peaks();
+        DispersionSolution solution = calibration.solution();
         double worst = 0;
         for (int p = 0; p < PIXELS; p++) {
             double truth = DISPERSION[0] + p * (DISPERSION[1] + p * DISPERSION[2]);
@@ -177,13 +161,10 @@ final class DemoScenario {
         out.printf(Locale.ROOT, "   wavelength at the detector's centre: %.4f nm +- %.4f nm (standard air)%n",
                 solution.wavelengthAt((PIXELS - 1) / 2.0), solution.wavelengthSigmaAt((PIXELS - 1) / 2.0));
         out.printf(Locale.ROOT, "   against the invented truth: worst error over the detector %.3f pixel%n", worst);
-        Path calibration = folder.resolve("calibration.json");
-        List<String> labels = new ArrayList<>();
-        for (int i = 0; i < match.size(); i++) {
-            labels.add("Ne I " + listed[match.lineIndex(i)] + " nm air");
-        }
-        CalibrationFiles.write(calibration, solution, PIXELS, "demo: neon-lamp.csv, lamp-ne-i", labels);
-        results.files.add(calibration);
+        Path calibrationFile = folder.resolve("calibration.json");
+        CalibrationFiles.write(calibrationFile, solution, PIXELS, "demo: neon-lamp.csv, lamp-ne-i",
+                calibration.pairLabels());
+        results.files.add(calibrationFile);
         List<double[]> used = new ArrayList<>();
         List<double[]> rejected = new ArrayList<>();
         for (int i = 0; i < solution.size(); i++) {
