@@ -14,8 +14,8 @@ import picocli.CommandLine.Option;
 final class DataOptions {
 
     @Option(names = "--data", paramLabel = "FILE",
-            description = {"Use a data file of your own before the built-in and provider data: a line list, level",
-                "table, quantum-defect set or isotope table (see `ritzwerk data`). Repeatable."})
+            description = "Use a data file of your own before the built-in and provider data: a line list, level "
+                    + "table, quantum-defect set or isotope table (`ritzwerk data check FILE` checks one). Repeatable.")
     List<Path> files = new ArrayList<>();
 
     private DataContext context;
