@@ -187,9 +187,8 @@ final class DataCommand implements Callable<Integer> {
 
     /** {@code ritzwerk data check FILE...}. */
     @Command(name = "check", mixinStandardHelpOptions = true,
-            description = {"Check files in the ritzwerk-lines or ritzwerk-levels format (CSV or JSON), quantum-defect",
-                "sets and isotope tables. One line per good file; for a bad file, every problem with file,",
-                "line, column and reason (exit code 2)."})
+            description = {"Check files in the ritzwerk-lines or ritzwerk-levels format (CSV or JSON). One line per",
+                "good file; for a bad file, every problem with file, line, column and reason (exit code 2)."})
     static final class Check implements Callable<Integer> {
 
         @Spec
