@@ -9,7 +9,8 @@ import picocli.CommandLine.Option;
 /**
  * The --data option of every command that uses reference data (a picocli mixin), and the one way
  * the command line builds its {@link DataContext}: every provider on the class path (built-in and
- * third-party jars), then the user's files in the order given, the last one first in precedence.
+ * third-party jars) with the user's files added, which take precedence over both (the registry's
+ * order: user file, third party, built-in).
  */
 final class DataOptions {
 
