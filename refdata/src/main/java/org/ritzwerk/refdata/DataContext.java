@@ -229,15 +229,8 @@ public final class DataContext {
         if (species.massNumber() == 0) {
             key = new Species(species.z(), defaultMassNumber(species.z()).orElse(0), species.charge());
         }
-        AlkaliAtom atom = alkalis.get(key);
-        if (atom == null) {
-            atom = assemble(key);
-            AlkaliAtom raced = alkalis.putIfAbsent(key, atom);
-            if (raced != null) {
-                atom = raced;
-            }
-        }
-        return atom;
+        // assemble() touches no other entry of this map, so computing inside it is safe; each atom is made once.
+        return alkalis.computeIfAbsent(key, this::assemble);
     }
 
     private AlkaliAtom assemble(Species species) {
