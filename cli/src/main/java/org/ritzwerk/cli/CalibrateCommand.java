@@ -23,6 +23,7 @@ import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.OutputFiles;
 import org.ritzwerk.refdata.SpectrumFiles;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -52,6 +53,9 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Spec
     CommandSpec spec;
+
+    @Mixin
+    DataOptions data;
 
     @Parameters(index = "0", paramLabel = "SPECTRUM_FILE",
             description = "Counts per pixel: a ritzwerk-spectrum CSV or JSON file (rows in pixel order).")
@@ -217,7 +221,7 @@ final class CalibrateCommand implements Callable<Integer> {
         if (lamps.isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give the lamp: --lamp \"Ne I\" (built-in sets) or --lines FILE");
         }
-        DataRegistry registry = DataRegistry.discoverDefault();
+        DataRegistry registry = data.context().registry();
         List<LineList> lists = new ArrayList<>();
         for (String option : lamps) {
             for (String text : option.split(",")) {
@@ -226,11 +230,11 @@ final class CalibrateCommand implements Callable<Integer> {
                     throw new IllegalArgumentException("--lamp: no built-in lamp set for " + species.notation()
                             + "; see `ritzwerk data`, or give your own list with --lines");
                 }
-                lists.add(registry.lampLines(species));
+                lists.add(data.context().lampLines(species));
             }
         }
         for (String set : lineSets) {
-            lists.add(LineSets.load(set, "lamp set"));
+            lists.add(LineSets.load(data.context(), set, "lamp set"));
         }
         return LampSet.of(lists, solutionMedium);
     }

@@ -30,7 +30,8 @@ import picocli.CommandLine.Spec;
             "List the reference data sets with their sources (built-in, from provider jars on the",
             "class path, and your own files given with --file), in order of precedence: your files,",
             "then third parties, then built-in. 'data show ID' prints one set; 'data check FILE'",
-            "checks a file in the ritzwerk-lines or ritzwerk-levels format and reports every problem."
+            "checks a file (line list, level table, quantum-defect set or isotope table) and reports",
+            "every problem. The other commands take the same files with --data."
         },
         subcommands = {DataCommand.Show.class, DataCommand.Check.class},
         footer = {"", "Examples:",
@@ -44,8 +45,9 @@ final class DataCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--file", paramLabel = "FILE",
-            description = "Add a line list or level table of your own (CSV or JSON). Repeatable.")
+    @Option(names = {"--file", "--data"}, paramLabel = "FILE",
+            description = {"Add a file of your own: a line list or level table (CSV or JSON), a quantum-defect",
+                "set or an isotope table. Repeatable."})
     List<Path> files = new ArrayList<>();
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
@@ -72,13 +74,9 @@ final class DataCommand implements Callable<Integer> {
         return 0;
     }
 
-    /** The registry of every discovered provider plus the user's files. */
+    /** The registry of every discovered provider plus the user's files (the command line's data context). */
     static DataRegistry registry(List<Path> files) {
-        DataRegistry registry = DataRegistry.discoverDefault();
-        for (Path file : files) {
-            registry = registry.withUserFile(file);
-        }
-        return registry;
+        return DataOptions.context(files).registry();
     }
 
     /** {@code ritzwerk data show ID}. */
@@ -93,7 +91,8 @@ final class DataCommand implements Callable<Integer> {
         @Parameters(paramLabel = "ID", description = "The data set id, as 'ritzwerk data' lists it.")
         String id;
 
-        @Option(names = "--file", paramLabel = "FILE", description = "Add a line list of your own. Repeatable.")
+        @Option(names = {"--file", "--data"}, paramLabel = "FILE",
+                description = "Add a file of your own (any format 'data --file' takes). Repeatable.")
         List<Path> files = new ArrayList<>();
 
         @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
@@ -211,10 +210,15 @@ final class DataCommand implements Callable<Integer> {
                         LineList list = (LineList) set;
                         what = list.size() + " lines of " + list.coveredSpecies().size() + " species in "
                                 + list.unit().symbol() + (list.medium() == null ? "" : " " + list.medium().spec());
-                    } else {
+                    } else if (set instanceof LevelList) {
                         LevelList levels = (LevelList) set;
                         what = levels.size() + " levels of " + levels.info().species().size() + " species in "
                                 + levels.unit().symbol();
+                    } else if (set instanceof QuantumDefects) {
+                        QuantumDefects defects = (QuantumDefects) set;
+                        what = defects.size() + " quantum-defect series of " + defects.species().notation();
+                    } else {
+                        what = set.size() + " isotopes";
                     }
                     spec.commandLine().getOut().println(file + ": ok, " + what + " (id " + set.info().id() + ")");
                 } catch (org.ritzwerk.RitzwerkException e) {

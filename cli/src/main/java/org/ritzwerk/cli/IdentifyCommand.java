@@ -22,6 +22,7 @@ import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.PeakFiles;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -47,6 +48,9 @@ final class IdentifyCommand implements Callable<Integer> {
 
     @Spec
     CommandSpec spec;
+
+    @Mixin
+    DataOptions data;
 
     @Parameters(paramLabel = "PEAKS_FILE", description = "Peaks in the ritzwerk-peaks format (CSV or JSON).")
     Path peaksFile;
@@ -178,7 +182,7 @@ final class IdentifyCommand implements Callable<Integer> {
             builder.excitationTemperature(excitationTemperature);
         }
         if (!species.isEmpty()) {
-            Ions.Atoms atoms = Ions.atoms(species, model);
+            Ions.Atoms atoms = Ions.atoms(data.context(), species, model);
             for (AlkaliAtom atom : atoms.alkalis()) {
                 builder.alkali(atom, nMax, Progress.on(spec.commandLine().getErr(), "identify: "
                         + atom.species().notation() + " lines"));
@@ -188,7 +192,7 @@ final class IdentifyCommand implements Callable<Integer> {
             }
         }
         for (String set : lineSets) {
-            builder.lineList(LineSets.load(set, "--lines"));
+            builder.lineList(LineSets.load(data.context(), set, "--lines"));
         }
         return builder.build();
     }

@@ -6,8 +6,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.refdata.RydbergData;
-import org.ritzwerk.refdata.NuclearData;
+import org.ritzwerk.refdata.DataContext;
 import picocli.CommandLine.Option;
 
 /** The --species and --model options shared by the commands on one-electron ions (a picocli mixin). */
@@ -22,12 +21,15 @@ final class Ions {
             description = "bohr, dirac, qed or hyperfine (default: ${DEFAULT-VALUE}).")
     String model;
 
-    /** @return the models of the ions named by the options, in the order given; at least one */
-    List<Ion> resolve() {
+    /**
+     * @param data the data context (nuclear data)
+     * @return the models of the ions named by the options, in the order given; at least one
+     */
+    List<Ion> resolve(DataContext data) {
         if (species.isEmpty()) {
             throw new IllegalArgumentException("--species is required, e.g. --species \"H I\"");
         }
-        return of(species, model);
+        return of(data, species, model);
     }
 
     /** A species with its model. */
@@ -44,20 +46,24 @@ final class Ions {
     record Atoms(List<Ion> ions, List<AlkaliAtom> alkalis) {
     }
 
-    /** @return the species of the options, one-electron ions and alkali atoms; at least one */
-    Atoms resolveAtoms() {
+    /**
+     * @param data the data context (nuclear data, quantum-defect sets)
+     * @return the species of the options, one-electron ions and alkali atoms; at least one
+     */
+    Atoms resolveAtoms(DataContext data) {
         if (species.isEmpty()) {
             throw new IllegalArgumentException("--species is required, e.g. --species \"H I\" or \"Rb-87 I\"");
         }
-        return atoms(species, model);
+        return atoms(data, species, model);
     }
 
     /**
+     * @param data           the data context (nuclear data, quantum-defect sets)
      * @param speciesOptions the --species values, each possibly a comma-separated list
      * @param tierId         the --model value, for the one-electron ions
      * @return the one-electron ions and the alkali atoms among them
      */
-    static Atoms atoms(List<String> speciesOptions, String tierId) {
+    static Atoms atoms(DataContext data, List<String> speciesOptions, String tierId) {
         List<String> oneElectron = new ArrayList<>();
         List<AlkaliAtom> alkalis = new ArrayList<>();
         for (String option : speciesOptions) {
@@ -68,25 +74,40 @@ final class Ions {
                 Species parsed = Species.parse(text);
                 if (parsed.isHydrogenLike()) {
                     oneElectron.add(text);
-                } else if (parsed.charge() == 0 && RydbergData.builtIn().species().stream()
+                } else if (parsed.charge() == 0 && data.alkaliSpecies().stream()
                         .anyMatch(s -> s.z() == parsed.z())) {
-                    alkalis.add(RydbergData.builtIn().atom(parsed));
+                    alkalis.add(data.alkaliAtom(parsed));
                 } else {
                     throw new IllegalArgumentException(parsed.notation() + ": levels and lines cover one-electron ions "
                             + "(H I, D I, He II, C VI, ...) and the neutral alkali atoms "
-                            + RydbergData.builtIn().species().stream().map(Species::notation).toList());
+                            + data.alkaliSpecies().stream().map(Species::notation).toList());
                 }
             }
         }
-        return new Atoms(oneElectron.isEmpty() ? List.of() : of(oneElectron, tierId), alkalis);
+        return new Atoms(oneElectron.isEmpty() ? List.of() : of(data, oneElectron, tierId), alkalis);
     }
 
     /**
+     * For DemoScenario only, until it takes a context (issue 14; the lead switches it): the models
+     * with the command line's default context (no --data files).
+     *
+     * @param speciesOptions the --species values, each possibly a comma-separated list
+     * @param tierId         the --model value
+     * @return the models, in the order given
+     * @deprecated pass the command's {@link DataContext} to {@link #of(DataContext, List, String)}
+     */
+    @Deprecated
+    static List<Ion> of(List<String> speciesOptions, String tierId) {
+        return of(DataOptions.context(List.of()), speciesOptions, tierId);
+    }
+
+    /**
+     * @param data           the data context (nuclear data)
      * @param speciesOptions the --species values, each possibly a comma-separated list
      * @param tierId         the --model value
      * @return the models, in the order given
      */
-    static List<Ion> of(List<String> speciesOptions, String tierId) {
+    static List<Ion> of(DataContext data, List<String> speciesOptions, String tierId) {
         Tier tier = Tier.fromId(tierId);
         List<Ion> ions = new ArrayList<>();
         for (String option : speciesOptions) {
@@ -99,7 +120,7 @@ final class Ions {
                     throw new IllegalArgumentException(species.notation() + " has " + (species.z() - species.charge())
                             + " electrons; levels and lines cover one-electron ions (H I, D I, He II, C VI, ...) so far");
                 }
-                ions.add(new Ion(species, HydrogenLikeModel.of(NuclearData.builtIn().nucleus(species), tier)));
+                ions.add(new Ion(species, HydrogenLikeModel.of(data.nucleus(species), tier)));
             }
         }
         return ions;

@@ -44,6 +44,9 @@ final class LevelsCommand implements Callable<Integer> {
     @Mixin
     Ions ions;
 
+    @Mixin
+    DataOptions data;
+
     @Option(names = "--n-max", paramLabel = "N", defaultValue = "4",
             description = "Highest principal quantum number (default: ${DEFAULT-VALUE}; at most 2000).")
     int nMax;
@@ -95,7 +98,7 @@ final class LevelsCommand implements Callable<Integer> {
         }
         Table table = new Table(columns);
         double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
-        Ions.Atoms atoms = ions.resolveAtoms();
+        Ions.Atoms atoms = ions.resolveAtoms(data.context());
         for (Ions.Ion ion : atoms.ions()) {
             LevelTable levels = ion.model().levels(nMax);
             double ground = Double.POSITIVE_INFINITY;

@@ -1,14 +1,11 @@
 package org.ritzwerk.cli;
 
-import java.nio.file.Files;
-import java.nio.file.Path;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
-import org.ritzwerk.refdata.DataRegistry;
-import org.ritzwerk.refdata.UserFiles;
+import org.ritzwerk.refdata.DataContext;
 
 /** The line lists that --lines (and --lamp) name: a user's file or a data set id. */
 final class LineSets {
@@ -17,14 +14,14 @@ final class LineSets {
     }
 
     /**
-     * @param set    a path to a line-list file, or a data set id such as {@code lamp-ne-i}
-     * @param option the option that named it, for messages
+     * @param context the data context
+     * @param set     a path to a line-list file, or a data set id such as {@code lamp-ne-i}
+     * @param option  the option that named it, for messages
      * @return the line list
      * @throws IllegalArgumentException when the set is not a line list
      */
-    static LineList load(String set, String option) {
-        Path path = Path.of(set);
-        DataSet data = Files.exists(path) ? UserFiles.read(path) : DataRegistry.discoverDefault().load(set);
+    static LineList load(DataContext context, String set, String option) {
+        DataSet data = context.dataSet(set);
         if (!(data instanceof LineList)) {
             throw new IllegalArgumentException(option + " " + set + " is a " + data.info().kind().id()
                     + " set, not a line list");

@@ -49,6 +49,9 @@ final class LinesCommand implements Callable<Integer> {
     @Mixin
     Ions ions;
 
+    @Mixin
+    DataOptions data;
+
     @Option(names = "--from", paramLabel = "QUANTITY", description = "One end of the window.")
     String from;
 
@@ -112,7 +115,7 @@ final class LinesCommand implements Callable<Integer> {
             throw new IllegalArgumentException("--min-a must be a finite rate >= 0 s^-1, got " + minA);
         }
         boolean air = AxisMedium.isAir(medium);
-        Ions.Atoms atoms = ions.resolveAtoms();
+        Ions.Atoms atoms = ions.resolveAtoms(data.context());
         if (transition != null || ladder != null) {
             return single(atoms);
         }

@@ -25,7 +25,6 @@ import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
-import org.ritzwerk.refdata.NuclearData;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -61,6 +60,9 @@ final class SynthCommand implements Callable<Integer> {
 
     @Mixin
     Ions ions;
+
+    @Mixin
+    DataOptions data;
 
     @Option(names = "--from", paramLabel = "QUANTITY", description = "One end of the spectrum (or give --dispersion).")
     String from;
@@ -205,7 +207,7 @@ final class SynthCommand implements Callable<Integer> {
         }
         Map<Integer, Double> abundance = abundances();
         Ions.Atoms atoms = ions.species.isEmpty() ? new Ions.Atoms(List.of(), List.of())
-                : Ions.atoms(ions.species, ions.model);
+                : Ions.atoms(data.context(), ions.species, ions.model);
         List<Ions.Ion> resolved = atoms.ions();
         if (resolved.isEmpty() && atoms.alkalis().isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
@@ -216,7 +218,7 @@ final class SynthCommand implements Callable<Integer> {
         }
         for (AlkaliAtom atom : atoms.alkalis()) {
             builder.alkali(atom, abundance.getOrDefault(atom.species().z(), 1.0),
-                    NuclearData.builtIn().nucleus(atom.species()));
+                    data.context().nucleus(atom.species()));
             if (electronDensity != null) {
                 spec.commandLine().getErr().println("note: " + atom.species().notation() + ": no ionisation balance for"
                         + " alkali atoms; --abundance counts its neutral atoms");
@@ -230,9 +232,9 @@ final class SynthCommand implements Callable<Integer> {
             }
         }
         for (String set : lineSets) {
-            LineList list = LineSets.load(set, "--lines");
+            LineList list = LineSets.load(data.context(), set, "--lines");
             try {
-                builder.lineList(list, NuclearData.builtIn()::nucleus);
+                builder.lineList(list, data.context()::nucleus);
             } catch (IllegalArgumentException e) {
                 throw new IllegalArgumentException("--lines " + set + ": " + e.getMessage(), e);
             }

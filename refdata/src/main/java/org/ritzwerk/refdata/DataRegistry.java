@@ -29,6 +29,10 @@ import org.ritzwerk.data.ReferenceDataProvider;
  * global; {@link #discoverDefault()} is the opt-in way to find every provider on the module or
  * class path. Data sets are loaded on first use and cached; all methods are safe to call from
  * many threads.
+ *
+ * <p>Code that needs typed data (nuclei, alkali atoms, lamp sets, line lists) takes a
+ * {@link DataContext} built from a registry ({@link DataContext#of(DataRegistry)}), not a registry
+ * reached through {@link #builtIn()} or {@link #discoverDefault()}.
  */
 public final class DataRegistry {
 
@@ -54,8 +58,9 @@ public final class DataRegistry {
     }
 
     /**
-     * @return a registry of Ritzwerk's built-in data only (nuclear data, lamp sets, computed sets,
-     *         Rydberg quantum defects and levels)
+     * @return a new registry of Ritzwerk's built-in data only (nuclear data, lamp sets, computed
+     *         sets, Rydberg quantum defects and levels): the built-in default, kept for
+     *         compatibility; pass a {@link DataContext} to whatever needs data
      */
     public static DataRegistry builtIn() {
         return new DataRegistry(List.of(new Ranked(new NuclearProvider(), Origin.BUILT_IN),
@@ -65,7 +70,8 @@ public final class DataRegistry {
 
     /**
      * @return a registry of every provider {@link ServiceLoader} finds for this module (built-in
-     *         ones included), the opt-in default
+     *         ones included), the opt-in default; a new registry on every call, never kept in a
+     *         static field
      */
     public static DataRegistry discoverDefault() {
         return discover(ServiceLoader.load(ReferenceDataProvider.class));
@@ -111,16 +117,46 @@ public final class DataRegistry {
     }
 
     /**
-     * @param file a line list or level table in the project's CSV or JSON formats; read and
-     *             checked now
+     * @param file a line list, level table, quantum-defect set or isotope table in the project's
+     *             formats ({@link UserFiles}); read and checked now (a quantum-defect set's R_M
+     *             with the built-in nuclear data; {@link DataContext#withUserFile(Path)} uses the
+     *             context's)
      * @return a registry with that file first in precedence
      * @throws DataFileException with every problem in the file
      */
     public DataRegistry withUserFile(Path file) {
-        DataSet set = UserFiles.read(file);
+        return withUserFile(file, NuclearData::builtIn);
+    }
+
+    /** {@link #withUserFile(Path)} with the nuclear data a quantum-defect file's R_M comes from. */
+    DataRegistry withUserFile(Path file, java.util.function.Supplier<NuclearData> nuclear) {
+        UserFiles.UserFile read = UserFiles.read(file, nuclear);
         List<Ranked> more = new ArrayList<>(providers);
-        more.add(new Ranked(new FileProvider(file.toString(), set), Origin.USER));
+        more.add(new Ranked(new FileProvider(file.toString(), read), Origin.USER));
         return new DataRegistry(more);
+    }
+
+    /**
+     * @param listing a listing of this registry
+     * @return the nuclear data (with default isotopes) behind it, when its provider is one of
+     *         Ritzwerk's own; else empty (then its {@link org.ritzwerk.data.IsotopeTable} is all there is)
+     */
+    Optional<NuclearData> nuclearData(Listing listing) {
+        return details(listing).flatMap(d -> d.nuclearData(listing.info().id()));
+    }
+
+    /**
+     * @param listing a listing of this registry
+     * @return the quantum-defect file behind it, when its provider is one of Ritzwerk's own
+     */
+    Optional<QuantumDefectFiles.Content> quantumDefectContent(Listing listing) {
+        return details(listing).flatMap(d -> d.quantumDefects(listing.info().id()));
+    }
+
+    private Optional<SetDetails> details(Listing listing) {
+        return providers.stream().filter(r -> r.provider().id().equals(listing.providerId())
+                && r.origin() == listing.origin() && r.provider() instanceof SetDetails)
+                .map(r -> (SetDetails) r.provider()).findFirst();
     }
 
     /** @return every listed set in precedence order (a shadowed set is listed after the one that wins) */
@@ -236,7 +272,7 @@ public final class DataRegistry {
     }
 
     /** A user file as a provider. */
-    private record FileProvider(String name, DataSet list) implements ReferenceDataProvider {
+    private record FileProvider(String name, UserFiles.UserFile file) implements ReferenceDataProvider, SetDetails {
         @Override
         public String id() {
             return "file:" + name;
@@ -249,12 +285,22 @@ public final class DataRegistry {
 
         @Override
         public List<DataSetInfo> dataSets() {
-            return List.of(list.info());
+            return List.of(file.set().info());
         }
 
         @Override
         public DataSet load(String dataSetId) {
-            return list;
+            return file.set();
+        }
+
+        @Override
+        public Optional<NuclearData> nuclearData(String dataSetId) {
+            return file.nuclear();
+        }
+
+        @Override
+        public Optional<QuantumDefectFiles.Content> quantumDefects(String dataSetId) {
+            return file.quantumDefects();
         }
     }
 }

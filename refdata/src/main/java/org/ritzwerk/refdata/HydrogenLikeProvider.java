@@ -29,6 +29,9 @@ import org.ritzwerk.quantity.Unit;
  * isotope in the built-in nuclear data that the engine can model, e.g. {@code computed-he-ii-levels}
  * and {@code computed-he-ii-lines}. Lines are vacuum wavelengths in nm with Einstein A. Computed
  * when loaded. Thread-safe.
+ *
+ * <p>Found by ServiceLoader, it computes from the built-in nuclear data; {@link #HydrogenLikeProvider(NuclearData)}
+ * computes the sets of other nuclear data (for instance a {@link DataContext}'s).
  */
 public final class HydrogenLikeProvider implements ReferenceDataProvider {
 
@@ -36,6 +39,18 @@ public final class HydrogenLikeProvider implements ReferenceDataProvider {
     public static final int N_MAX = 10;
 
     private volatile Map<String, Entry> entries;
+    private final java.util.function.Supplier<NuclearData> nuclear;
+
+    /** A provider computing from the built-in nuclear data (the one ServiceLoader makes). */
+    public HydrogenLikeProvider() {
+        this.nuclear = NuclearData::builtIn;
+    }
+
+    /** @param nuclear the nuclear data to compute the sets from */
+    public HydrogenLikeProvider(NuclearData nuclear) {
+        java.util.Objects.requireNonNull(nuclear, "nuclear");
+        this.nuclear = () -> nuclear;
+    }
 
     /** One offered set: its info, the species and whether it is the level or the line set. */
     private record Entry(DataSetInfo info, Species species, boolean levels) {
@@ -65,7 +80,7 @@ public final class HydrogenLikeProvider implements ReferenceDataProvider {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
                     "no computed set '" + dataSetId + "'");
         }
-        HydrogenLikeModel model = HydrogenLikeModel.of(NuclearData.builtIn().nucleus(entry.species()), Tier.QED);
+        HydrogenLikeModel model = HydrogenLikeModel.of(nuclear.get().nucleus(entry.species()), Tier.QED);
         return entry.levels() ? levels(entry.info(), entry.species(), model) : lines(entry.info(), entry.species(), model);
     }
 
@@ -73,7 +88,7 @@ public final class HydrogenLikeProvider implements ReferenceDataProvider {
         Map<String, Entry> listed = entries;
         if (listed == null) {
             Map<String, Entry> made = new LinkedHashMap<>();
-            NuclearData data = NuclearData.builtIn();
+            NuclearData data = nuclear.get();
             for (Isotope isotope : data.isotopes()) {
                 boolean defaultIsotope = data.defaultMassNumber(isotope.z()).orElse(-1) == isotope.massNumber();
                 boolean hydrogenIsotope = isotope.z() == 1;
@@ -84,7 +99,7 @@ public final class HydrogenLikeProvider implements ReferenceDataProvider {
                         : isotope.massNumber() == 1 ? 0 : isotope.massNumber(), isotope.z() - 1);
                 String stem = "computed-" + species.notation().toLowerCase(Locale.ROOT).replace(' ', '-');
                 Provenance provenance = Provenance.computedBy("Ritzwerk hydrogen-like model, qed tier, n <= " + N_MAX
-                        + ", nuclear data " + NuclearData.DATA_SET_ID);
+                        + ", nuclear data " + data.info().id());
                 made.put(stem + "-levels", new Entry(new DataSetInfo(stem + "-levels", DataKind.LEVELS,
                         species.notation() + " levels n <= " + N_MAX + " (computed)", "qed", provenance,
                         List.of(species)), species, true));

@@ -1,13 +1,17 @@
 package org.ritzwerk.refdata;
 
 import java.util.List;
+import java.util.Optional;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
 
-/** The built-in nuclear data ({@link NuclearData}) as a provider. Thread-safe. */
-public final class NuclearProvider implements ReferenceDataProvider {
+/**
+ * The built-in nuclear data ({@link NuclearData#builtIn()}) as a provider, with its table of
+ * default isotopes for a {@link DataContext}. Thread-safe.
+ */
+public final class NuclearProvider implements ReferenceDataProvider, SetDetails {
 
     @Override
     public String id() {
@@ -31,5 +35,10 @@ public final class NuclearProvider implements ReferenceDataProvider {
                     "no nuclear set '" + dataSetId + "'; known: " + NuclearData.DATA_SET_ID);
         }
         return NuclearData.builtIn().table();
+    }
+
+    @Override
+    public Optional<NuclearData> nuclearData(String dataSetId) {
+        return NuclearData.DATA_SET_ID.equals(dataSetId) ? Optional.of(NuclearData.builtIn()) : Optional.empty();
     }
 }

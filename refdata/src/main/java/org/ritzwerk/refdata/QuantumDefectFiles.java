@@ -47,7 +47,8 @@ import org.ritzwerk.engine.rydberg.CorePolarizability;
  * columns are free text (the row's citation, and how its numbers were checked) and may contain
  * commas. The mass-corrected Rydberg constant is not in
  * the file: it is {@code R_M = R_inf / (1 + m_e / (M - m_e))} from the species' atomic mass M in
- * the built-in nuclear data (common practice: the core is the singly charged ion). Every
+ * the nuclear data the file is read with (common practice: the core is the singly charged ion);
+ * {@link DataContext#alkaliAtom(Species)} computes it again from the context's nuclear data. Every
  * problem in a file is reported at once with its line. Stateless and thread-safe.
  */
 public final class QuantumDefectFiles {
@@ -91,6 +92,19 @@ public final class QuantumDefectFiles {
      * @throws DataFileException with every problem found
      */
     public static Content read(InputStream in, String source) {
+        return read(in, source, NuclearData.builtIn());
+    }
+
+    /**
+     * @param in      the bytes (UTF-8), read to the end; not closed
+     * @param source  the file name, for messages
+     * @param nuclear the nuclear data whose atomic mass of the species gives R_M
+     * @return the content
+     * @throws DataFileException with every problem found (an isotope missing from {@code nuclear}
+     *                           is one, {@code qd.no-mass})
+     */
+    public static Content read(InputStream in, String source, NuclearData nuclear) {
+        Objects.requireNonNull(nuclear, "nuclear");
         List<DataProblem> problems = new ArrayList<>();
         Map<String, String> header = new LinkedHashMap<>();
         Map<String, Integer> headerLine = new LinkedHashMap<>();
@@ -158,7 +172,7 @@ public final class QuantumDefectFiles {
         }
         Content content = null;
         if (problems.isEmpty()) {
-            content = build(header, headerLine, series, source, problems);
+            content = build(header, headerLine, series, source, problems, nuclear);
         }
         if (!problems.isEmpty()) {
             throw new DataFileException(DataFileException.INVALID, source, problems, "");
@@ -233,7 +247,7 @@ public final class QuantumDefectFiles {
     }
 
     private static Content build(Map<String, String> header, Map<String, Integer> headerLine,
-            List<QuantumDefects.Series> series, String source, List<DataProblem> problems) {
+            List<QuantumDefects.Series> series, String source, List<DataProblem> problems, NuclearData nuclear) {
         Species species;
         try {
             species = Species.parse(header.get("species"));
@@ -268,7 +282,7 @@ public final class QuantumDefectFiles {
         }
         double rydberg;
         try {
-            rydberg = rydbergPerCm(species);
+            rydberg = rydbergPerCm(nuclear.isotope(species).atomicMass());
         } catch (ReferenceDataException e) {
             problems.add(new DataProblem(source, headerLine.get("species"), 0, "qd.no-mass", e.getMessage(),
                     header.get("species")));
@@ -288,12 +302,27 @@ public final class QuantumDefectFiles {
 
     /**
      * @param species a neutral isotope in the built-in nuclear data
-     * @return {@code R_M = R_inf / (1 + m_e / (M - m_e))} in cm^-1, M the atomic mass (AME2020)
+     * @return {@code R_M = R_inf / (1 + m_e / (M - m_e))} in cm^-1, M the atomic mass in the
+     *         built-in nuclear data (the built-in default, for compatibility; a context's value is
+     *         {@link #rydbergPerCm(double)} of {@link DataContext#isotope(Species)})
      * @throws ReferenceDataException when the isotope is not in the nuclear data
      */
     public static double rydbergPerCm(Species species) {
-        double massU = NuclearData.builtIn().isotope(species).atomicMass();
+        return rydbergPerCm(NuclearData.builtIn().isotope(species).atomicMass());
+    }
+
+    /**
+     * @param massU the atomic mass M of the neutral atom, u; finite, above the electron mass
+     * @return the mass-corrected Rydberg constant {@code R_M = R_inf / (1 + m_e / (M - m_e))} of
+     *         its singly charged core, cm^-1 (common practice)
+     * @throws IllegalArgumentException for a mass that is not finite or not above m_e
+     */
+    public static double rydbergPerCm(double massU) {
         double electronU = PhysicalConstants.ELECTRON_MASS.value() / PhysicalConstants.ATOMIC_MASS_CONSTANT.value();
+        if (!(massU > electronU) || Double.isInfinite(massU)) {
+            throw new IllegalArgumentException("atomic mass must be finite and above the electron mass (u), got "
+                    + massU);
+        }
         return PhysicalConstants.RYDBERG.value() / 100 / (1 + electronU / (massU - electronU));
     }
 

@@ -12,6 +12,8 @@ public final class ReferenceDataException extends RitzwerkException {
     public static final String UNKNOWN_DATA_SET = "refdata.unknown-data-set";
     /** Code: a provider failed to list or load its data. */
     public static final String PROVIDER_FAILED = "refdata.provider-failed";
+    /** Code: a data set was asked for as a kind it is not (a level table where a line list is needed). */
+    public static final String WRONG_KIND = "refdata.wrong-kind";
     /** Code: a built-in data file does not read (a packaging bug). */
     public static final String BAD_BUILT_IN = "refdata.bad-built-in";
 

@@ -11,6 +11,7 @@ import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Collectors;
@@ -42,6 +43,11 @@ import org.ritzwerk.quantity.Unit;
  *
  * <p>The files are read once, on first use of {@link #builtIn()}; the object is immutable and
  * thread-safe.
+ *
+ * <p><b>Built-in default, not a context.</b> {@link #builtIn()} is kept for compatibility and for
+ * the built-in provider. Code that needs alkali atoms takes them from a {@link DataContext}
+ * ({@link DataContext#alkaliAtom(Species)}), where a user's quantum-defect file or a third-party
+ * provider can replace these sets and the nuclear data gives R_M.
  */
 public final class RydbergData {
 
@@ -63,7 +69,10 @@ public final class RydbergData {
         this.potentials = potentials;
     }
 
-    /** @return the built-in data, read on first use (thread-safe) */
+    /**
+     * @return the built-in data, read on first use (thread-safe); the built-in default, for
+     *         compatibility: code that needs alkali atoms takes them from a {@link DataContext}
+     */
     public static RydbergData builtIn() {
         RydbergData data = builtIn;
         if (data == null) {
@@ -119,7 +128,7 @@ public final class RydbergData {
      * (the last l of an element serves every higher l); the last column, how the row was checked, is
      * free text.
      */
-    private static Map<Integer, ModelPotential> readPotentials() {
+    static Map<Integer, ModelPotential> readPotentials() {
         String resource = "rydberg/model-potentials.csv";
         Map<Integer, List<ModelPotential.Parameters>> sets = new LinkedHashMap<>();
         Map<Integer, double[]> heads = new LinkedHashMap<>();
@@ -224,6 +233,16 @@ public final class RydbergData {
             sets.put(e.levels().info().id(), e.levels());
         }
         return sets;
+    }
+
+    /**
+     * @param id a data set id
+     * @return the whole quantum-defect file behind set {@code id} (core polarizabilities, the id of
+     *         its levels), if it is one of these sets
+     */
+    Optional<QuantumDefectFiles.Content> content(String id) {
+        return entries.values().stream().map(Entry::content).filter(c -> c.defects().info().id().equals(id))
+                .findFirst();
     }
 
     private Entry entry(Species species) {

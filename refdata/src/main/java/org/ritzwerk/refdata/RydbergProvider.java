@@ -1,6 +1,7 @@
 package org.ritzwerk.refdata;
 
 import java.util.List;
+import java.util.Optional;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Origin;
@@ -11,7 +12,7 @@ import org.ritzwerk.data.ReferenceDataProvider;
  * {@code quantum-defects-<atom>} and measured low levels {@code levels-<atom>} for Li-7, Na-23,
  * K-39, Rb-85, Rb-87 and Cs-133. Thread-safe; the files are read on first use.
  */
-public final class RydbergProvider implements ReferenceDataProvider {
+public final class RydbergProvider implements ReferenceDataProvider, SetDetails {
 
     @Override
     public String id() {
@@ -36,5 +37,10 @@ public final class RydbergProvider implements ReferenceDataProvider {
                     + "'; known: " + String.join(", ", RydbergData.builtIn().byId().keySet()));
         }
         return (DataSet) set;
+    }
+
+    @Override
+    public Optional<QuantumDefectFiles.Content> quantumDefects(String dataSetId) {
+        return RydbergData.builtIn().content(dataSetId);
     }
 }

@@ -1,0 +1,311 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertNotEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.OutputStream;
+import java.net.URISyntaxException;
+import java.net.URL;
+import java.net.URLClassLoader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import java.util.jar.JarEntry;
+import java.util.jar.JarOutputStream;
+import java.util.stream.Collectors;
+import javax.tools.JavaCompiler;
+import javax.tools.ToolProvider;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.ReferenceDataProvider;
+import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.NuclearData;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * The command line's data comes from its data context: a user's file given with {@code --data}
+ * and a third-party provider jar on the class path each replace the nuclear data, a quantum-defect
+ * set and a lamp set, and so change what the commands print. Every replacement value is invented
+ * for the test.
+ */
+class DataContextCommandTest {
+
+    /** An isotope file in the built-in format: H-1 made 1.5 u heavy (invented for tests). */
+    private static final String ISOTOPES = String.join("\n",
+            "# id: test-isotopes",
+            "# title: invented isotopes for tests",
+            "# source: invented for tests",
+            "# provenance: published",
+            "# version: 1",
+            String.join(",", NuclearData.ISOTOPE_COLUMNS),
+            "1,1,H,1.5,0,TEST,1/2,2.79284734463,,TEST,0.8414,,TEST",
+            "");
+
+    private static final String NUCLEAR_PROVIDER = String.join("\n",
+            "package com.example.nuclear;",
+            "import java.util.List;",
+            "import java.util.OptionalDouble;",
+            "import org.ritzwerk.data.*;",
+            "public final class HeavyHydrogen implements ReferenceDataProvider {",
+            "  public String id() { return \"example-nuclear\"; }",
+            "  private static DataSetInfo info() {",
+            "    return new DataSetInfo(\"example-isotopes\", DataKind.NUCLEAR, \"invented isotopes\", \"1\",",
+            "        Provenance.published(\"invented for tests\"), List.of());",
+            "  }",
+            "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
+            "  public DataSet load(String id) {",
+            "    return new IsotopeTable(info(), List.of(",
+            "        new Isotope(1, 1, 1.5, 0, 1, OptionalDouble.of(2.79284734463), OptionalDouble.of(0.8414), \"x\")));",
+            "  }",
+            "}");
+
+    /** Rb-87 quantum defects as a bare record: one s series, d0 = 3 from n = 5 (invented for tests). */
+    private static final String RYDBERG_PROVIDER = String.join("\n",
+            "package com.example.rydberg;",
+            "import java.util.List;",
+            "import org.ritzwerk.atom.Species;",
+            "import org.ritzwerk.data.*;",
+            "public final class PlainRubidium implements ReferenceDataProvider {",
+            "  public String id() { return \"example-rydberg\"; }",
+            "  private static DataSetInfo info() {",
+            "    return new DataSetInfo(\"example-rb-87\", DataKind.QUANTUM_DEFECTS, \"invented defects\", \"1\",",
+            "        Provenance.published(\"invented for tests\"), List.of(Species.parse(\"Rb-87 I\")));",
+            "  }",
+            "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
+            "  public DataSet load(String id) {",
+            "    return new QuantumDefects(info(), Species.parse(\"Rb-87 I\"), 33690.8, 109736.0,",
+            "        List.of(new QuantumDefects.Series(0, 1, List.of(3.0), 5)));",
+            "  }",
+            "}");
+
+    // ------------------------------------------------------------------ nuclear data
+
+    @Test
+    void aUserIsotopeFileMovesTheHydrogenLines(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("isotopes.csv");
+        Files.writeString(file, ISOTOPES, StandardCharsets.UTF_8);
+        double before = lymanAlphaPerCm(CliTest.run(lyman()));
+        double after = lymanAlphaPerCm(CliTest.run(lyman("--data", file.toString())));
+        assertHeavierHydrogen(before, after);
+    }
+
+    @Test
+    void aThirdPartyNuclearProviderMovesTheHydrogenLines(@TempDir Path dir) throws Exception {
+        double before = lymanAlphaPerCm(CliTest.run(lyman()));
+        double after = withProvider(dir, "com.example.nuclear.HeavyHydrogen", NUCLEAR_PROVIDER,
+                () -> lymanAlphaPerCm(CliTest.run(lyman())));
+        assertHeavierHydrogen(before, after);
+    }
+
+    private static String[] lyman(String... more) {
+        List<String> args = new ArrayList<>(List.of("lines", "--species", "H I", "--from", "121.5 nm", "--to",
+                "121.6 nm", "--format", "csv"));
+        args.addAll(List.of(more));
+        return args.toArray(new String[0]);
+    }
+
+    /** @return the wavenumber of Lyman alpha 2p 2P3/2 - 1s in cm-1, from the csv of {@code lines} */
+    private static double lymanAlphaPerCm(CliTest.Run run) {
+        assertEquals(0, run.code(), run.err());
+        List<String> rows = run.out().lines().collect(Collectors.toList());
+        List<String> header = List.of(rows.get(0).split(","));
+        int column = header.indexOf("wavenumber_per_cm");
+        assertTrue(column >= 0, rows.get(0));
+        return rows.stream().skip(1).filter(r -> r.contains("2p 2P3/2")).map(r -> r.split(",")[column])
+                .mapToDouble(Double::parseDouble).findFirst().orElseThrow();
+    }
+
+    /** H-1 at 1.5 u instead of 1.007825 u: the reduced-mass factor raises Lyman alpha by 1.8e-4 (common practice). */
+    private static void assertHeavierHydrogen(double before, double after) {
+        double me = 5.48579909e-4; // electron mass in u (CODATA 2018)
+        double expected = (1 + me / (1.007825032 - me)) / (1 + me / (1.5 - me)); // nuclear masses, u
+        assertEquals(expected, after / before, 1e-7, before + " -> " + after);
+    }
+
+    // ------------------------------------------------------------------ quantum defects
+
+    @Test
+    void aUserQuantumDefectFileMovesTheRydbergLevels(@TempDir Path dir) throws IOException {
+        String builtIn;
+        try (var in = NuclearData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
+            builtIn = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        }
+        assertTrue(builtIn.contains("\n0,1/2,3.1311807,"));
+        Path file = dir.resolve("my-rb-87.csv");
+        Files.writeString(file, builtIn.replace("# id: quantum-defects-rb-87", "# id: my-rb-87")
+                .replace("\n0,1/2,3.1311807,", "\n0,1/2,3.1411807,"), StandardCharsets.UTF_8);
+        CliTest.Run checked = CliTest.run("data", "check", file.toString());
+        assertEquals(0, checked.code(), checked.err());
+        assertTrue(checked.out().strip().matches(java.util.regex.Pattern.quote(file.toString())
+                + ": ok, \\d+ quantum-defect series of Rb-87 I \\(id my-rb-87\\)"), checked.out());
+        double before = rb50s();
+        double after = rb50s("--data", file.toString());
+        // d0 up by 0.01 at n* = 46.86: E = limit - R_M / n*^2 drops by 2 R_M 0.01 / n*^3 = 0.0213 cm-1.
+        assertEquals(-0.0213, after - before, 0.0005, before + " -> " + after);
+        assertTrue(CliTest.run("data", "--data", file.toString()).out().lines()
+                .anyMatch(l -> l.startsWith("my-rb-87") && l.contains("user")));
+    }
+
+    @Test
+    void aThirdPartyQuantumDefectSetMovesTheRydbergLevels(@TempDir Path dir) throws Exception {
+        double before = rb50s();
+        double after = withProvider(dir, "com.example.rydberg.PlainRubidium", RYDBERG_PROVIDER, () -> rb50s());
+        double rydberg = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I")).rydbergPerCm();
+        assertEquals(33690.8 - rydberg / (47.0 * 47.0), after, 1e-6);
+        assertNotEquals(before, after);
+    }
+
+    /** @return the energy of Rb-87 50s in cm-1 as {@code levels} prints it */
+    private static double rb50s(String... more) {
+        List<String> args = new ArrayList<>(List.of("levels", "--species", "Rb-87 I", "--n-max", "50", "--l-max",
+                "0", "--format", "csv"));
+        args.addAll(List.of(more));
+        CliTest.Run run = CliTest.run(args.toArray(new String[0]));
+        assertEquals(0, run.code(), run.err());
+        List<String> rows = run.out().lines().collect(Collectors.toList());
+        int column = List.of(rows.get(0).split(",")).indexOf("energy_per_cm");
+        assertTrue(column >= 0, rows.get(0));
+        return rows.stream().filter(r -> r.contains("50s 2S1/2")).map(r -> r.split(",")[column])
+                .mapToDouble(Double::parseDouble).findFirst().orElseThrow();
+    }
+
+    // ------------------------------------------------------------------ lamp sets
+
+    @Test
+    void aUserLampSetAndAThirdPartyLampSetChangeWhatCalibratePairs(@TempDir Path dir) throws Exception {
+        Path spectrum = dir.resolve("neon.csv");
+        CliTest.Run synth = CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "540,0.06,-2e-6", "--pixels",
+                "2048", "--medium", "air", "--temperature", "400", "--resolving-power", "4000", "--read-noise", "4",
+                "--seed", "12", "--out", spectrum.toString());
+        assertEquals(0, synth.code(), synth.err());
+        List<Double> builtIn = calibrate(dir, spectrum, "lamp-ne-i");
+        // Our own neon set: the built-in one without the first line the built-in calibration used.
+        double dropped = builtIn.get(0);
+        LineList neon = DataContext.builtIn().lampLines(Species.parse("Ne I"));
+        StringBuilder file = new StringBuilder("# ritzwerk-lines 1\n# id: my-ne-i\n# title: my neon lamp\n"
+                + "# source: invented for tests\n# provenance: measured\n# version: 1\n# kind: lamp-lines\n"
+                + "# position-unit: nm\n# medium: air\nspecies,position,intensity\n");
+        StringBuilder provider = new StringBuilder(String.join("\n",
+                "package com.example.lamps;",
+                "import java.util.List;",
+                "import org.ritzwerk.atom.Species;",
+                "import org.ritzwerk.data.*;",
+                "import org.ritzwerk.medium.Medium;",
+                "import org.ritzwerk.quantity.Unit;",
+                "public final class MyNeon implements ReferenceDataProvider {",
+                "  public String id() { return \"example-lamps\"; }",
+                "  private static DataSetInfo info() {",
+                "    return new DataSetInfo(\"example-ne-i\", DataKind.LAMP_LINES, \"neon lamp\", \"1\",",
+                "        Provenance.published(\"invented for tests\"), List.of(Species.parse(\"Ne I\")));",
+                "  }",
+                "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
+                "  public DataSet load(String id) {",
+                "    Species ne = Species.parse(\"Ne I\");",
+                "    return LineList.builder(info(), Unit.NANOMETRE, Medium.air(), \"\")"));
+        for (int i = 0; i < neon.size(); i++) {
+            if (neon.position(i) == dropped || neon.intensity(i).isEmpty()) {
+                continue;
+            }
+            String position = Double.toString(neon.position(i));
+            String intensity = Double.toString(neon.intensity(i).getAsDouble());
+            file.append("Ne I,").append(position).append(',').append(intensity).append('\n');
+            provider.append("\n        .add(ne, ").append(position).append(", Double.NaN, ").append(intensity)
+                    .append(", null, Double.NaN, null, null, null)");
+        }
+        provider.append("\n        .build();\n  }\n}\n");
+        Path mine = dir.resolve("my-neon.csv");
+        Files.writeString(mine, file, StandardCharsets.UTF_8);
+
+        List<Double> fromFile = calibrate(dir, spectrum, "my-ne-i", "--data", mine.toString());
+        assertFalse(fromFile.contains(dropped), fromFile.toString());
+        assertEquals(builtIn.size() - 1, fromFile.size(), builtIn + " vs " + fromFile);
+
+        List<Double> fromJar = withProvider(dir.resolve("jar"), "com.example.lamps.MyNeon", provider.toString(), () -> {
+            CliTest.Run listed = CliTest.run("data");
+            assertTrue(listed.out().lines().anyMatch(l -> l.startsWith("example-ne-i") && l.contains("third-party")),
+                    listed.out());
+            return calibrate(dir, spectrum, "example-ne-i");
+        });
+        assertEquals(fromFile, fromJar);
+    }
+
+    /** @return the lamp wavelengths (nm, air) the calibration used, after checking which set it named */
+    private static List<Double> calibrate(Path dir, Path spectrum, String expectedSet, String... more)
+            throws IOException {
+        Path out = dir.resolve("calibration-" + expectedSet + ".json");
+        List<String> args = new ArrayList<>(List.of("calibrate", spectrum.toString(), "--lamp", "Ne I", "--out",
+                out.toString()));
+        args.addAll(List.of(more));
+        CliTest.Run run = CliTest.run(args.toArray(new String[0]));
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("lamp: " + expectedSet), run.out());
+        JsonNode root = JsonMapper.builder().build().readTree(Files.readString(out));
+        List<Double> used = new ArrayList<>();
+        for (JsonNode line : root.get("lines")) {
+            if (line.get("used").asBoolean()) {
+                used.add(line.get("wavelength_nm").asDouble());
+            }
+        }
+        return used;
+    }
+
+    // ------------------------------------------------------------------ provider jars
+
+    /**
+     * Compiles a provider, packs it into a jar with its ServiceLoader entry, and runs {@code body}
+     * with the jar on the context class loader, which the command line's discovery searches.
+     */
+    private static <T> T withProvider(Path dir, String className, String source, Callable<T> body) throws Exception {
+        Path jar = providerJar(dir, className, source);
+        Thread thread = Thread.currentThread();
+        ClassLoader previous = thread.getContextClassLoader();
+        try (URLClassLoader loader = new URLClassLoader(new URL[] {jar.toUri().toURL()},
+                DataContextCommandTest.class.getClassLoader())) {
+            thread.setContextClassLoader(loader);
+            return body.call();
+        } finally {
+            thread.setContextClassLoader(previous);
+        }
+    }
+
+    private static Path providerJar(Path dir, String className, String source) throws IOException {
+        String path = className.replace('.', '/');
+        Path file = dir.resolve("src/" + path + ".java");
+        Files.createDirectories(file.getParent());
+        Files.writeString(file, source, StandardCharsets.UTF_8);
+        Path classes = dir.resolve("classes");
+        Files.createDirectories(classes);
+        JavaCompiler compiler = ToolProvider.getSystemJavaCompiler();
+        int status = compiler.run(null, null, null, "-d", classes.toString(), "-cp",
+                location(ReferenceDataProvider.class).toString(), file.toString());
+        assertEquals(0, status, "the test provider compiles");
+        Path jar = dir.resolve(className.substring(className.lastIndexOf('.') + 1).toLowerCase(Locale.ROOT) + ".jar");
+        try (JarOutputStream out = new JarOutputStream(Files.newOutputStream(jar))) {
+            out.putNextEntry(new JarEntry("META-INF/services/org.ritzwerk.data.ReferenceDataProvider"));
+            out.write((className + "\n").getBytes(StandardCharsets.UTF_8));
+            out.closeEntry();
+            out.putNextEntry(new JarEntry(path + ".class"));
+            Files.copy(classes.resolve(path + ".class"), (OutputStream) out);
+            out.closeEntry();
+        }
+        return jar;
+    }
+
+    private static Path location(Class<?> type) {
+        try {
+            return Path.of(type.getProtectionDomain().getCodeSource().getLocation().toURI());
+        } catch (URISyntaxException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+}

@@ -1,0 +1,351 @@
+package org.ritzwerk.refdata;
+
+import java.nio.file.Files;
+import java.nio.file.InvalidPathException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.ConcurrentMap;
+import java.util.stream.Collectors;
+import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSet;
+import org.ritzwerk.data.Isotope;
+import org.ritzwerk.data.IsotopeTable;
+import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.QuantumDefects;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.CorePolarizability;
+import org.ritzwerk.engine.rydberg.MeasuredLevel;
+import org.ritzwerk.engine.rydberg.ModelPotential;
+import org.ritzwerk.quantity.Unit;
+
+/**
+ * The data a computation uses, passed explicitly: a {@link DataRegistry} (user files first, then
+ * third-party providers, then Ritzwerk's built-in data) and typed answers built from it.
+ *
+ * <ul>
+ * <li><b>Nuclear data</b> ({@link #nucleus}, {@link #isotope}, {@link #defaultMassNumber}): each
+ * isotope from the {@link DataKind#NUCLEAR} set of highest precedence that tabulates it; each
+ * element's default mass number from the first set in precedence that names one (a user's
+ * isotope file names none, so the built-in table of most abundant isotopes stays in force).</li>
+ * <li><b>Alkali atoms</b> ({@link #alkaliSpecies()}, {@link #alkaliAtom(Species)}): the
+ * {@link DataKind#QUANTUM_DEFECTS} set of highest precedence for the isotope, with the core
+ * polarizabilities and the measured levels set its file names (a third party's bare
+ * {@link QuantumDefects} record has neither), and R_M computed from this context's nuclear data
+ * ({@link QuantumDefectFiles#rydbergPerCm(double)}). The atoms use the Coulomb approximation;
+ * {@link #modelPotential(Species)} gives the built-in core potential for
+ * {@link AlkaliAtom#withModelPotential}.</li>
+ * <li><b>Line lists</b> ({@link #lampLines(Species)}, {@link #lineList(String)}): the lamp set of
+ * highest precedence for a species; a set by id, or a user's file by path.</li>
+ * </ul>
+ *
+ * <p>A context is an immutable value: {@link #withUserFile(Path)} returns a new one. Nothing is
+ * global: {@link #builtIn()} and {@link #discoverDefault()} make a new context on every call (the
+ * latter is the opt-in way to use every provider on the class path) and are never kept in a
+ * static field. Everything is loaded on first use and kept, once, however many threads ask; all
+ * methods are safe to call from many threads.
+ *
+ * <p>Typical use: {@code AlkaliAtom rb = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I"));}
+ */
+public final class DataContext {
+
+    private final DataRegistry registry;
+    private final Object lock = new Object();
+    private volatile NuclearData nuclear;
+    private volatile List<Species> alkaliSpecies;
+    private volatile Map<Integer, ModelPotential> potentials;
+    private final ConcurrentMap<Species, AlkaliAtom> alkalis = new ConcurrentHashMap<>();
+
+    private DataContext(DataRegistry registry) {
+        this.registry = Objects.requireNonNull(registry, "registry");
+    }
+
+    /**
+     * @param registry the data sets and their precedence
+     * @return a context answering from that registry
+     */
+    public static DataContext of(DataRegistry registry) {
+        return new DataContext(registry);
+    }
+
+    /** @return a new context of Ritzwerk's built-in data only ({@link DataRegistry#builtIn()}) */
+    public static DataContext builtIn() {
+        return new DataContext(DataRegistry.builtIn());
+    }
+
+    /**
+     * @return a new context of every provider {@link java.util.ServiceLoader} finds (built-in and
+     *         third-party jars on the class or module path), the opt-in default
+     */
+    public static DataContext discoverDefault() {
+        return new DataContext(DataRegistry.discoverDefault());
+    }
+
+    /**
+     * @param file a user's file: a line list, level table, quantum-defect set or isotope table
+     *             ({@link UserFiles}); read and checked now (a quantum-defect set against this
+     *             context's nuclear data)
+     * @return a new context with that file first in precedence
+     * @throws DataFileException with every problem in the file
+     */
+    public DataContext withUserFile(Path file) {
+        return new DataContext(registry.withUserFile(file, this::nuclearData));
+    }
+
+    /** @return the registry this context answers from */
+    public DataRegistry registry() {
+        return registry;
+    }
+
+    // ------------------------------------------------------------------ nuclear data
+
+    /**
+     * @return the nuclear data of this context: the {@link DataKind#NUCLEAR} sets layered in
+     *         precedence order (see the class comment); loaded once
+     * @throws ReferenceDataException when the registry has no nuclear data
+     */
+    public NuclearData nuclearData() {
+        NuclearData data = nuclear;
+        if (data == null) {
+            synchronized (lock) {
+                data = nuclear;
+                if (data == null) {
+                    data = layerNuclearData();
+                    nuclear = data;
+                }
+            }
+        }
+        return data;
+    }
+
+    private NuclearData layerNuclearData() {
+        List<NuclearData> winners = new ArrayList<>();
+        List<NuclearData> shadowed = new ArrayList<>();
+        Set<String> ids = new HashSet<>();
+        for (DataRegistry.Listing listing : registry.list()) {
+            if (listing.info().kind() != DataKind.NUCLEAR) {
+                continue;
+            }
+            boolean wins = ids.add(listing.info().id());
+            Optional<NuclearData> own = registry.nuclearData(listing);
+            if (wins) {
+                winners.add(own.orElseGet(() -> NuclearData.of(isotopeTable(listing.info().id()))));
+            } else {
+                // A shadowed set gives no isotopes, but its default isotopes still apply below the winners'.
+                own.ifPresent(shadowed::add);
+            }
+        }
+        if (winners.isEmpty()) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
+                    "no nuclear data set in this context; 'ritzwerk data' lists the sets available");
+        }
+        if (shadowed.isEmpty()) {
+            return NuclearData.layered(winners);
+        }
+        List<NuclearData> layers = new ArrayList<>(winners);
+        for (NuclearData data : shadowed) {
+            layers.add(data.defaultsOnly());
+        }
+        return NuclearData.layered(layers);
+    }
+
+    private IsotopeTable isotopeTable(String id) {
+        DataSet set = registry.load(id);
+        if (!(set instanceof IsotopeTable)) {
+            throw new ReferenceDataException(ReferenceDataException.PROVIDER_FAILED, "nuclear set '" + id
+                    + "' is not an isotope table");
+        }
+        return (IsotopeTable) set;
+    }
+
+    /**
+     * @param species a species; mass number 0 means the element's default isotope
+     * @return the nucleus of its isotope
+     * @throws ReferenceDataException when this context has no data for the isotope
+     */
+    public Nucleus nucleus(Species species) {
+        return nuclearData().nucleus(species);
+    }
+
+    /**
+     * @param species a species; mass number 0 means the element's default isotope
+     * @return the tabulated isotope
+     * @throws ReferenceDataException when this context has no data for the isotope
+     */
+    public Isotope isotope(Species species) {
+        return nuclearData().isotope(species);
+    }
+
+    /**
+     * @param z atomic number
+     * @return the mass number a species of this element means when it gives none, if any
+     */
+    public Optional<Integer> defaultMassNumber(int z) {
+        return nuclearData().defaultMassNumber(z);
+    }
+
+    // ------------------------------------------------------------------ alkali atoms
+
+    /**
+     * @return the neutral isotopes with a quantum-defect set in this context, ordered by Z and A;
+     *         immutable
+     */
+    public List<Species> alkaliSpecies() {
+        List<Species> species = alkaliSpecies;
+        if (species == null) {
+            Set<Species> found = new HashSet<>();
+            for (DataRegistry.Listing listing : registry.list()) {
+                if (listing.info().kind() == DataKind.QUANTUM_DEFECTS) {
+                    listing.info().species().stream().filter(s -> s.charge() == 0 && s.massNumber() > 0)
+                            .forEach(found::add);
+                }
+            }
+            species = found.stream().sorted(Comparator.comparingInt(Species::z).thenComparingInt(Species::massNumber))
+                    .collect(Collectors.toUnmodifiableList());
+            alkaliSpecies = species;
+        }
+        return species;
+    }
+
+    /**
+     * @param species a neutral alkali isotope (without mass number: the element's default isotope)
+     * @return the engine's model of it, assembled once (see the class comment)
+     * @throws ReferenceDataException when no quantum-defect set covers the isotope, or its levels
+     *                                set is missing or does not read
+     */
+    public AlkaliAtom alkaliAtom(Species species) {
+        Objects.requireNonNull(species, "species");
+        Species key = species;
+        if (species.massNumber() == 0) {
+            key = new Species(species.z(), defaultMassNumber(species.z()).orElse(0), species.charge());
+        }
+        // assemble() touches no other entry of this map, so computing inside it is safe; each atom is made once.
+        return alkalis.computeIfAbsent(key, this::assemble);
+    }
+
+    private AlkaliAtom assemble(Species species) {
+        DataRegistry.Listing listing = species.charge() != 0 ? null : registry.list().stream()
+                .filter(l -> l.info().kind() == DataKind.QUANTUM_DEFECTS && l.info().species().contains(species))
+                .findFirst().orElse(null);
+        if (listing == null) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no Rydberg data for "
+                    + species.notation() + "; available: " + alkaliSpecies().stream().map(Species::notation)
+                            .collect(Collectors.joining(", ")));
+        }
+        String id = listing.info().id();
+        DataSet set = registry.load(id);
+        if (!(set instanceof QuantumDefects)) {
+            throw new ReferenceDataException(ReferenceDataException.PROVIDER_FAILED, "quantum-defect set '" + id
+                    + "' is not a quantum-defect record");
+        }
+        QuantumDefects defects = (QuantumDefects) set;
+        Optional<QuantumDefectFiles.Content> content = registry.quantumDefectContent(listing);
+        CorePolarizability core = content.map(QuantumDefectFiles.Content::core).orElse(null);
+        String levelsId = content.map(QuantumDefectFiles.Content::levelsId).orElse("");
+        List<MeasuredLevel> measured = levelsId.isEmpty() ? List.of() : measuredLevels(id, levelsId, species);
+        double rydberg = QuantumDefectFiles.rydbergPerCm(isotope(species).atomicMass());
+        QuantumDefects withMass = new QuantumDefects(defects.info(), defects.species(), defects.limitPerCm(), rydberg,
+                defects.series());
+        return AlkaliAtom.of(withMass, measured, core);
+    }
+
+    private List<MeasuredLevel> measuredLevels(String setId, String levelsId, Species species) {
+        DataSet set;
+        try {
+            set = registry.load(levelsId);
+        } catch (ReferenceDataException e) {
+            throw new ReferenceDataException(e.code(), "quantum-defect set '" + setId + "' names levels '"
+                    + levelsId + "': " + e.getMessage());
+        }
+        if (!(set instanceof LevelList) || ((LevelList) set).unit() != Unit.PER_CENTIMETRE
+                || !set.info().species().contains(species)) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "quantum-defect set '" + setId
+                    + "' names levels '" + levelsId + "', which is not a level table of " + species.notation()
+                    + " in cm-1");
+        }
+        return RydbergData.measuredLevels((LevelList) set);
+    }
+
+    /**
+     * @param species a neutral alkali atom (any isotope)
+     * @return the built-in Marinescu et al. (1994) core model potential of the element (model
+     *         potentials are not a kind of data set; a registry cannot replace them)
+     * @throws ReferenceDataException when the element has none
+     */
+    public ModelPotential modelPotential(Species species) {
+        Map<Integer, ModelPotential> read = potentials;
+        if (read == null) {
+            synchronized (lock) {
+                read = potentials;
+                if (read == null) {
+                    read = RydbergData.readPotentials();
+                    potentials = read;
+                }
+            }
+        }
+        ModelPotential potential = read.get(species.z());
+        if (potential == null || species.charge() != 0) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no model potential for "
+                    + species.notation() + "; available for Li, Na, K, Rb, Cs");
+        }
+        return potential;
+    }
+
+    // ------------------------------------------------------------------ line lists
+
+    /**
+     * @param species a lamp's species, e.g. {@code Ne I}
+     * @return the lamp line set of highest precedence for it
+     * @throws ReferenceDataException ({@code unknown-data-set}) when no lamp set covers the species
+     */
+    public LineList lampLines(Species species) {
+        return registry.lampLines(species);
+    }
+
+    /**
+     * @param idOrPath a path to an existing user file, else a data set id
+     * @return the set: the file as read (a quantum-defect file against this context's nuclear
+     *         data), or the registry's set of that id
+     * @throws ReferenceDataException when no set has the id
+     * @throws DataFileException      when the file does not read
+     */
+    public DataSet dataSet(String idOrPath) {
+        Objects.requireNonNull(idOrPath, "idOrPath");
+        Path path = null;
+        try {
+            path = Path.of(idOrPath);
+        } catch (InvalidPathException e) {
+            // not a path: an id
+        }
+        if (path != null && Files.exists(path)) {
+            return UserFiles.read(path, this::nuclearData).set();
+        }
+        return registry.load(idOrPath);
+    }
+
+    /**
+     * @param idOrPath a path to an existing line-list file, else the id of a line or lamp set
+     * @return the line list
+     * @throws ReferenceDataException ({@link ReferenceDataException#WRONG_KIND}) when the set is
+     *                                not a line list, or ({@code unknown-data-set}) when no set has the id
+     * @throws DataFileException      when the file does not read
+     */
+    public LineList lineList(String idOrPath) {
+        DataSet set = dataSet(idOrPath);
+        if (!(set instanceof LineList)) {
+            throw new ReferenceDataException(ReferenceDataException.WRONG_KIND, idOrPath + " is a "
+                    + set.info().kind().id() + " set, not a line list");
+        }
+        return (LineList) set;
+    }
+}

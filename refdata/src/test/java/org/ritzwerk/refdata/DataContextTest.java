@@ -1,0 +1,341 @@
+package org.ritzwerk.refdata;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotEquals;
+import static org.junit.jupiter.api.Assertions.assertSame;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.net.URL;
+import java.net.URLClassLoader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Collections;
+import java.util.List;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.LevelOrigin;
+import org.ritzwerk.engine.rydberg.State;
+
+/**
+ * The data context: it answers like the built-in data when built from it, and a user's file or a
+ * third-party provider jar replaces each kind of data (nuclear, quantum defects, lamp lines) and
+ * so changes what is computed. Every replacement value here is invented for the test.
+ */
+class DataContextTest {
+
+    private static final Species H = Species.parse("H I");
+    private static final Species RB87 = Species.parse("Rb-87 I");
+    private static final Species NE = Species.parse("Ne I");
+    private static final State S50 = State.of(50, 0, 1);
+
+    /** An isotope file in the built-in format: H-1 made 1.5 u heavy, Rb-87 made 88 u (invented for tests). */
+    private static final String ISOTOPES = String.join("\n",
+            "# id: test-isotopes",
+            "# title: invented isotopes for tests",
+            "# source: invented for tests",
+            "# provenance: published",
+            "# version: 1",
+            "# a comment line",
+            String.join(",", NuclearData.ISOTOPE_COLUMNS),
+            "1,1,H,1.5,0,TEST,1/2,2.79284734463,,TEST,0.8414,,TEST",
+            "37,87,Rb,88.0,0,TEST,3/2,2.75,,TEST,4.1989,,TEST",
+            "");
+
+    /** A third party's nuclear data: the same invented masses as {@link #ISOTOPES}. */
+    private static final String NUCLEAR_PROVIDER = String.join("\n",
+            "package com.example.nuclear;",
+            "import java.util.List;",
+            "import java.util.OptionalDouble;",
+            "import org.ritzwerk.data.*;",
+            "public final class HeavyIsotopes implements ReferenceDataProvider {",
+            "  public String id() { return \"example-nuclear\"; }",
+            "  private static DataSetInfo info() {",
+            "    return new DataSetInfo(\"example-isotopes\", DataKind.NUCLEAR, \"invented isotopes\", \"1\",",
+            "        Provenance.published(\"invented for tests\"), List.of());",
+            "  }",
+            "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
+            "  public DataSet load(String id) {",
+            "    return new IsotopeTable(info(), List.of(",
+            "        new Isotope(1, 1, 1.5, 0, 1, OptionalDouble.of(2.79284734463), OptionalDouble.of(0.8414), \"invented\"),",
+            "        new Isotope(37, 87, 88.0, 0, 3, OptionalDouble.of(2.75), OptionalDouble.of(4.1989), \"invented\")));",
+            "  }",
+            "}");
+
+    /** A third party's Rb-87 quantum defects: one s series with d0 = 3 from n = 5 (invented for tests). */
+    private static final String RYDBERG_PROVIDER = String.join("\n",
+            "package com.example.rydberg;",
+            "import java.util.List;",
+            "import org.ritzwerk.atom.Species;",
+            "import org.ritzwerk.data.*;",
+            "public final class PlainRubidium implements ReferenceDataProvider {",
+            "  public String id() { return \"example-rydberg\"; }",
+            "  private static DataSetInfo info() {",
+            "    return new DataSetInfo(\"example-rb-87\", DataKind.QUANTUM_DEFECTS, \"invented defects\", \"1\",",
+            "        Provenance.published(\"invented for tests\"), List.of(Species.parse(\"Rb-87 I\")));",
+            "  }",
+            "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
+            "  public DataSet load(String id) {",
+            "    return new QuantumDefects(info(), Species.parse(\"Rb-87 I\"), 33690.8, 109736.0,",
+            "        List.of(new QuantumDefects.Series(0, 1, List.of(3.0), 5)));",
+            "  }",
+            "}");
+
+    /** A third party's neon lamp: one line only (invented for tests). */
+    private static final String LAMP_PROVIDER = String.join("\n",
+            "package com.example.lamps;",
+            "import java.util.List;",
+            "import org.ritzwerk.atom.Species;",
+            "import org.ritzwerk.data.*;",
+            "import org.ritzwerk.medium.Medium;",
+            "import org.ritzwerk.quantity.Unit;",
+            "public final class OneLineNeon implements ReferenceDataProvider {",
+            "  public String id() { return \"example-lamps\"; }",
+            "  private static DataSetInfo info() {",
+            "    return new DataSetInfo(\"example-ne-i\", DataKind.LAMP_LINES, \"invented neon lamp\", \"1\",",
+            "        Provenance.published(\"invented for tests\"), List.of(Species.parse(\"Ne I\")));",
+            "  }",
+            "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
+            "  public DataSet load(String id) {",
+            "    return LineList.builder(info(), Unit.NANOMETRE, Medium.air(), \"\")",
+            "        .add(Species.parse(\"Ne I\"), 640.225, Double.NaN, Double.NaN, null, Double.NaN, null, null, \"x\")",
+            "        .build();",
+            "  }",
+            "}");
+
+    @Test
+    void theBuiltInContextAnswersAsTheBuiltInData() {
+        DataContext context = DataContext.builtIn();
+        assertEquals(NuclearData.builtIn().nucleus(H), context.nucleus(H));
+        assertEquals(85, context.defaultMassNumber(37).orElseThrow());
+        AlkaliAtom fromContext = context.alkaliAtom(RB87);
+        AlkaliAtom builtIn = RydbergData.builtIn().atom(RB87);
+        assertEquals(builtIn.rydbergPerCm(), fromContext.rydbergPerCm(), 0.0);
+        assertEquals(builtIn.energyPerCm(S50), fromContext.energyPerCm(S50), 0.0);
+        assertEquals(builtIn.measuredLevels(), fromContext.measuredLevels());
+        assertEquals(builtIn.corePolarizability(), fromContext.corePolarizability());
+        assertEquals(RydbergData.builtIn().species(), context.alkaliSpecies());
+        assertEquals(Species.parse("Rb-85 I"), context.alkaliAtom(Species.parse("Rb I")).species());
+        assertSame(fromContext, context.alkaliAtom(RB87), "assembled once");
+        assertEquals(RydbergData.builtIn().modelPotential(RB87), context.modelPotential(RB87));
+        assertEquals(DataRegistry.builtIn().lampLines(NE).size(), context.lampLines(NE).size());
+    }
+
+    @Test
+    void aUserIsotopeFileChangesHydrogenLinesAndRydbergConstants(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("isotopes.csv");
+        Files.writeString(file, ISOTOPES, StandardCharsets.UTF_8);
+        DataContext builtIn = DataContext.builtIn();
+        DataContext mine = builtIn.withUserFile(file);
+        assertHeavierHydrogenAndRubidium(builtIn, mine);
+        // The user's file names no default isotopes: the built-in ones stay, the other isotopes too.
+        assertEquals(85, mine.defaultMassNumber(37).orElseThrow());
+        assertEquals(builtIn.nucleus(Species.parse("He II")), mine.nucleus(Species.parse("He II")));
+        assertEquals("test-isotopes", mine.registry().list().get(0).info().id());
+    }
+
+    @Test
+    void aUserIsotopeFileOfTheBuiltInIdReplacesTheBuiltInTableButKeepsTheDefaults(@TempDir Path dir)
+            throws IOException {
+        Path file = dir.resolve("isotopes.csv");
+        Files.writeString(file, ISOTOPES.replace("test-isotopes", NuclearData.DATA_SET_ID), StandardCharsets.UTF_8);
+        DataContext mine = DataContext.builtIn().withUserFile(file);
+        assertEquals(1.5, mine.isotope(H).atomicMass(), 0.0);
+        ReferenceDataException gone = assertThrows(ReferenceDataException.class,
+                () -> mine.nucleus(Species.parse("He II")));
+        assertEquals(ReferenceDataException.UNKNOWN_ISOTOPE, gone.code());
+        assertEquals(87, mine.isotope(Species.parse("Rb-87 I")).massNumber());
+        assertEquals(85, mine.defaultMassNumber(37).orElseThrow());
+    }
+
+    @Test
+    void aThirdPartyNuclearProviderChangesHydrogenLinesAndRydbergConstants(@TempDir Path dir) throws IOException {
+        Path jar = ProviderJars.build(dir, "com.example.nuclear.HeavyIsotopes", NUCLEAR_PROVIDER);
+        try (URLClassLoader loader = new URLClassLoader(new URL[] {jar.toUri().toURL()}, getClass().getClassLoader())) {
+            DataContext theirs = DataContext.of(DataRegistry.discover(loader));
+            assertHeavierHydrogenAndRubidium(DataContext.builtIn(), theirs);
+            assertEquals(85, theirs.defaultMassNumber(37).orElseThrow());
+        }
+    }
+
+    /** H-1 at 1.5 u and Rb-87 at 88 u move Lyman alpha and the Rb 50s level as the reduced mass says. */
+    private static void assertHeavierHydrogenAndRubidium(DataContext before, DataContext after) {
+        Nucleus light = before.nucleus(H);
+        Nucleus heavy = after.nucleus(H);
+        assertEquals(1.5, after.isotope(H).atomicMass(), 0.0);
+        double lymanBefore = lymanAlpha(before);
+        double lymanAfter = lymanAlpha(after);
+        assertNotEquals(lymanBefore, lymanAfter);
+        // Energies scale with the reduced mass m M / (m + M) (common practice); recoil terms beyond it are < 1e-7.
+        double me = org.ritzwerk.constants.PhysicalConstants.ELECTRON_MASS.value();
+        double expected = (1 + me / light.massKg()) / (1 + me / heavy.massKg());
+        assertEquals(expected, lymanAfter / lymanBefore, 1e-7);
+        AlkaliAtom rbBefore = before.alkaliAtom(RB87);
+        AlkaliAtom rbAfter = after.alkaliAtom(RB87);
+        assertEquals(QuantumDefectFiles.rydbergPerCm(88.0), rbAfter.rydbergPerCm(), 0.0);
+        double nStar = rbBefore.level(S50).effectiveN();
+        assertEquals(-(rbAfter.rydbergPerCm() - rbBefore.rydbergPerCm()) / (nStar * nStar),
+                rbAfter.energyPerCm(S50) - rbBefore.energyPerCm(S50), 1e-9);
+        assertNotEquals(rbBefore.energyPerCm(S50), rbAfter.energyPerCm(S50));
+    }
+
+    private static double lymanAlpha(DataContext context) {
+        HydrogenLikeModel model = HydrogenLikeModel.of(context.nucleus(H), Tier.QED);
+        return model.energy(2, 1, 3) - model.energy(1, 0, 1);
+    }
+
+    @Test
+    void aUserQuantumDefectFileChangesRydbergLevels(@TempDir Path dir) throws IOException {
+        String builtInText;
+        try (InputStream in = RydbergData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
+            builtInText = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        }
+        assertTrue(builtInText.contains("\n0,1/2,3.1311807,"));
+        Path file = dir.resolve("my-rb-87.csv");
+        // Another id, and an s-series d0 larger by 0.01 (invented for the test); it names the built-in levels.
+        Files.writeString(file, builtInText.replace("# id: quantum-defects-rb-87", "# id: my-rb-87")
+                .replace("\n0,1/2,3.1311807,", "\n0,1/2,3.1411807,"), StandardCharsets.UTF_8);
+        DataContext builtIn = DataContext.builtIn();
+        DataContext mine = builtIn.withUserFile(file);
+        AlkaliAtom before = builtIn.alkaliAtom(RB87);
+        AlkaliAtom after = mine.alkaliAtom(RB87);
+        assertEquals("my-rb-87", after.quantumDefects().info().id());
+        assertEquals(before.measuredLevels(), after.measuredLevels(), "the levels set it names");
+        assertEquals(before.corePolarizability(), after.corePolarizability());
+        assertEquals(before.rydbergPerCm(), after.rydbergPerCm(), 0.0);
+        double nStar = before.level(S50).effectiveN();
+        assertEquals(nStar - 0.01, after.level(S50).effectiveN(), 1e-6);
+        assertTrue(after.energyPerCm(S50) < before.energyPerCm(S50) - 0.01);
+        // p levels are untouched.
+        assertEquals(before.energyPerCm(State.of(50, 1, 3)), after.energyPerCm(State.of(50, 1, 3)), 0.0);
+    }
+
+    @Test
+    void aUserQuantumDefectFileMustNameALevelsSetThatExists(@TempDir Path dir) throws IOException {
+        String text;
+        try (InputStream in = RydbergData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
+            text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        }
+        Path file = dir.resolve("my-rb-87.csv");
+        Files.writeString(file, text.replace("# id: quantum-defects-rb-87", "# id: my-rb-87")
+                .replace("# levels: levels-rb-87", "# levels: my-missing-levels"), StandardCharsets.UTF_8);
+        DataContext mine = DataContext.builtIn().withUserFile(file);
+        ReferenceDataException e = assertThrows(ReferenceDataException.class, () -> mine.alkaliAtom(RB87));
+        assertEquals("quantum-defect set 'my-rb-87' names levels 'my-missing-levels': no data set 'my-missing-levels';"
+                + " 'ritzwerk data' lists the sets available", e.getMessage());
+    }
+
+    @Test
+    void aThirdPartyQuantumDefectSetChangesRydbergLevels(@TempDir Path dir) throws IOException {
+        Path jar = ProviderJars.build(dir, "com.example.rydberg.PlainRubidium", RYDBERG_PROVIDER);
+        try (URLClassLoader loader = new URLClassLoader(new URL[] {jar.toUri().toURL()}, getClass().getClassLoader())) {
+            DataContext theirs = DataContext.of(DataRegistry.discover(loader));
+            AlkaliAtom rb = theirs.alkaliAtom(RB87);
+            assertEquals("example-rb-87", rb.quantumDefects().info().id());
+            // A bare record: no measured levels, no core; R_M from the context's nuclear data, not the record's.
+            assertTrue(rb.measuredLevels().isEmpty());
+            assertTrue(rb.corePolarizability().isEmpty());
+            double rydberg = QuantumDefectFiles.rydbergPerCm(theirs.isotope(RB87).atomicMass());
+            assertEquals(rydberg, rb.rydbergPerCm(), 0.0);
+            assertEquals(LevelOrigin.QUANTUM_DEFECT_FIT, rb.level(S50).origin());
+            assertEquals(33690.8 - rydberg / (47.0 * 47.0), rb.energyPerCm(S50), 1e-9);
+            assertNotEquals(DataContext.builtIn().alkaliAtom(RB87).energyPerCm(S50), rb.energyPerCm(S50));
+        }
+    }
+
+    @Test
+    void aUserLampFileAndAThirdPartyLampSetReplaceTheBuiltInSet(@TempDir Path dir) throws IOException {
+        int builtIn = DataContext.builtIn().lampLines(NE).size();
+        assertTrue(builtIn > 10);
+        Path file = dir.resolve("my-neon.csv");
+        Files.writeString(file, "# ritzwerk-lines 1\n# id: my-neon\n# title: my neon lamp\n# source: measured by me\n"
+                + "# provenance: measured\n# version: 1\n# kind: lamp-lines\n# position-unit: nm\n# medium: air\n"
+                + "species,position\nNe I,585.2488\nNe I,640.2249\n", StandardCharsets.UTF_8);
+        LineList mine = DataContext.builtIn().withUserFile(file).lampLines(NE);
+        assertEquals("my-neon", mine.info().id());
+        assertEquals(2, mine.size());
+        Path jar = ProviderJars.build(dir.resolve("jar"), "com.example.lamps.OneLineNeon", LAMP_PROVIDER);
+        try (URLClassLoader loader = new URLClassLoader(new URL[] {jar.toUri().toURL()}, getClass().getClassLoader())) {
+            LineList theirs = DataContext.of(DataRegistry.discover(loader)).lampLines(NE);
+            assertEquals("example-ne-i", theirs.info().id());
+            assertEquals(1, theirs.size());
+        }
+    }
+
+    @Test
+    void lineListsByIdOrPathAndTheWrongKindIsRefused(@TempDir Path dir) throws IOException {
+        DataContext context = DataContext.builtIn();
+        assertEquals("lamp-ar-i", context.lineList("lamp-ar-i").info().id());
+        ReferenceDataException e = assertThrows(ReferenceDataException.class,
+                () -> context.lineList("computed-h-i-levels"));
+        assertEquals(ReferenceDataException.WRONG_KIND, e.code());
+        assertEquals("computed-h-i-levels is a levels set, not a line list", e.getMessage());
+        Path file = dir.resolve("isotopes.csv");
+        Files.writeString(file, ISOTOPES, StandardCharsets.UTF_8);
+        assertEquals(ReferenceDataException.WRONG_KIND,
+                assertThrows(ReferenceDataException.class, () -> context.lineList(file.toString())).code());
+    }
+
+    @Test
+    void aBadIsotopeFileIsRefusedWithFileLineAndField(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("bad.csv");
+        Files.writeString(file, ISOTOPES.replace("1,1,H,1.5,", "1,1,H,heavy,").replace("37,87,Rb,", "37,87,Kr,")
+                .replace("# version: 1\n", ""), StandardCharsets.UTF_8);
+        DataFileException e = assertThrows(DataFileException.class, () -> DataContext.builtIn().withUserFile(file));
+        assertEquals(DataFileException.INVALID, e.code());
+        assertEquals(List.of("nuclear.bad-field", "nuclear.bad-field", "nuclear.missing-key"),
+                e.problems().stream().map(DataProblem::code).toList());
+        assertEquals(file + ":7:7: field mass_u is not a finite number: 'heavy'", e.problems().get(0).render()
+                .lines().findFirst().orElseThrow());
+        assertEquals(file + ":8:7: field symbol: Kr does not match Z = 37", e.problems().get(1).render()
+                .lines().findFirst().orElseThrow());
+        assertEquals(file + ":1: required header '# version: ...' is missing or empty", e.problems().get(2).render()
+                .lines().findFirst().orElseThrow());
+        Files.writeString(file, ISOTOPES.replace("3/2,2.75", "-3/2,2.75") + "1,1,H,1.6,0,TEST,1/2,,,TEST,,,TEST\n",
+                StandardCharsets.UTF_8);
+        DataFileException twice = assertThrows(DataFileException.class, () -> UserFiles.read(file));
+        assertEquals(List.of("nuclear.bad-field", "nuclear.duplicate-isotope"),
+                twice.problems().stream().map(DataProblem::code).toList());
+        assertTrue(twice.getMessage().contains(":10: isotope H-1 is given twice"), twice.getMessage());
+    }
+
+    @Test
+    void aQuantumDefectFileForAnIsotopeWithoutNuclearDataIsRefused(@TempDir Path dir) throws IOException {
+        String text;
+        try (InputStream in = RydbergData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
+            text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        }
+        Path file = dir.resolve("rb-84.csv");
+        Files.writeString(file, text.replace("# species: Rb-87 I", "# species: Rb-84 I"), StandardCharsets.UTF_8);
+        DataFileException e = assertThrows(DataFileException.class, () -> DataContext.builtIn().withUserFile(file));
+        assertEquals("qd.no-mass", e.problems().get(0).code());
+        assertTrue(e.getMessage().contains(file + ":4: no nuclear data for Rb-84"), e.getMessage());
+    }
+
+    @Test
+    void assemblesOnceFromManyThreads() throws Exception {
+        DataContext context = DataContext.builtIn();
+        ExecutorService pool = Executors.newFixedThreadPool(4);
+        try {
+            List<Future<AlkaliAtom>> atoms = pool.invokeAll(Collections.nCopies(16, () -> context.alkaliAtom(RB87)));
+            for (Future<AlkaliAtom> atom : atoms) {
+                assertSame(atoms.get(0).get(), atom.get());
+            }
+        } finally {
+            pool.shutdown();
+        }
+        assertTrue(DataContext.builtIn().alkaliAtom(RB87) != context.alkaliAtom(RB87), "no global cache");
+    }
+}
