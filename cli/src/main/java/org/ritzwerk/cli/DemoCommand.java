@@ -2,6 +2,7 @@ package org.ritzwerk.cli;
 
 import java.io.IOException;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -36,7 +37,8 @@ final class DemoCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        new DemoScenario(folder, spec.commandLine().getOut(), Runtime.getRuntime().availableProcessors()).run();
+        new DemoScenario(folder, spec.commandLine().getOut(), Runtime.getRuntime().availableProcessors(),
+                DataOptions.context(List.of())).run();
         return 0;
     }
 }

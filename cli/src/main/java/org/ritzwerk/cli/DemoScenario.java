@@ -41,9 +41,7 @@ import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.CalibrationFiles;
-import org.ritzwerk.refdata.DataRegistry;
-import org.ritzwerk.refdata.NuclearData;
-import org.ritzwerk.refdata.RydbergData;
+import org.ritzwerk.refdata.DataContext;
 
 /**
  * The demo's invented scenario, run end to end with the library on data it generates itself
@@ -92,11 +90,19 @@ final class DemoScenario {
     private final Path folder;
     private final PrintWriter out;
     private final int threads;
+    private final DataContext data;
 
-    DemoScenario(Path folder, PrintWriter out, int threads) {
+    /**
+     * @param folder  where the files go
+     * @param out     where the report goes
+     * @param threads rendering threads (the results do not depend on it)
+     * @param data    the reference data (lamp lines, nuclei, the rubidium atom)
+     */
+    DemoScenario(Path folder, PrintWriter out, int threads, DataContext data) {
         this.folder = folder;
         this.out = out;
         this.threads = threads;
+        this.data = data;
     }
 
     Results run() throws IOException {
@@ -129,9 +135,9 @@ final class DemoScenario {
         out.println("   The lab's compact grating spectrometer (4096 pixels, about 400-670 nm) looks at a small neon");
         out.println("   calibration lamp. Ritzwerk finds the peaks, pairs them with the built-in Ne I lamp lines");
         out.println("   without any starting guess, and fits the pixel -> wavelength polynomial.");
-        LineList neon = (LineList) DataRegistry.builtIn().load("lamp-ne-i");
+        LineList neon = data.lampLines(Species.parse("Ne I"));
         double[] expected = Scene.builder(detector).medium(Medium.air()).temperature(350)
-                .lineList(neon, NuclearData.builtIn()::nucleus).instrument(Instrument.ofFwhm(RESPONSE_FWHM))
+                .lineList(neon, data::nucleus).instrument(Instrument.ofFwhm(RESPONSE_FWHM))
                 .peakCounts(30_000).build().render(threads).expectedCounts();
         for (int p = 0; p < PIXELS; p++) {
             expected[p] += 120; // dark level and stray light (invented)
@@ -187,7 +193,7 @@ final class DemoScenario {
         out.println("   little helium. Its cooler outer plasma shows the Balmer lines of H and D; its hot core");
         out.println("   shows ionised helium. The peaks are put on the neon calibration, identified with a");
         out.println("   velocity search, and used to estimate the plasma's temperature and electron density.");
-        List<Ions.Ion> ions = Ions.of(List.of("H I", "D I", "He II"), "qed");
+        List<Ions.Ion> ions = Ions.of(data, List.of("H I", "D I", "He II"), "qed");
         Ions.Ion hydrogen = ions.get(0);
         Ions.Ion deuterium = ions.get(1);
         Ions.Ion helium = ions.get(2);
@@ -507,7 +513,7 @@ final class DemoScenario {
         out.println("   states by two lasers (5s1/2 -> 5p3/2 -> nd5/2). For three candidate states, Ritzwerk gives");
         out.println("   the laser wavelengths, the microwave line to the nearest p state, its dipole matrix element");
         out.println("   and the lifetimes at 0 K and in a 300 K enclosure.");
-        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        AlkaliAtom rb = data.alkaliAtom(Species.parse("Rb-87 I"));
         State ground = State.parse("5s1/2");
         State intermediate = State.parse("5p3/2");
         out.printf(Locale.ROOT, "   %-8s %12s %12s %10s %14s %12s %10s %10s%n", "state", "laser 1 nm", "laser 2 nm",

@@ -88,20 +88,6 @@ final class Ions {
     }
 
     /**
-     * For DemoScenario only, until it takes a context (issue 14; the lead switches it): the models
-     * with the command line's default context (no --data files).
-     *
-     * @param speciesOptions the --species values, each possibly a comma-separated list
-     * @param tierId         the --model value
-     * @return the models, in the order given
-     * @deprecated pass the command's {@link DataContext} to {@link #of(DataContext, List, String)}
-     */
-    @Deprecated
-    static List<Ion> of(List<String> speciesOptions, String tierId) {
-        return of(DataOptions.context(List.of()), speciesOptions, tierId);
-    }
-
-    /**
      * @param data           the data context (nuclear data)
      * @param speciesOptions the --species values, each possibly a comma-separated list
      * @param tierId         the --model value

@@ -31,12 +31,8 @@ class ArchitectureTest {
     private static final Pattern SINGLETON_CLASSES = Pattern.compile("\\b(NuclearData|RydbergData)\\b");
     private static final Pattern DISCOVER = Pattern.compile("\\bdiscover(Default)?\\s*\\(");
 
-    /**
-     * DemoScenario.java still reaches for the built-in data (DataRegistry, NuclearData and
-     * RydbergData .builtIn()); another change owns that file and switches it to a context (issue
-     * 14). It is left out of this check until then; remove it from this set when it is done.
-     */
-    private static final Set<String> NOT_YET_CHECKED = Set.of("DemoScenario.java");
+    /** Files left out of the check: none (the demo takes its context like every command). */
+    private static final Set<String> NOT_YET_CHECKED = Set.of();
 
     @Test
     void noCommandReachesForABuiltInSingleton() throws IOException {

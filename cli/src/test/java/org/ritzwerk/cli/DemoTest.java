@@ -20,7 +20,8 @@ class DemoTest {
     @Test
     void theScenarioFindsWhatWasPutIn(@TempDir Path dir) throws IOException {
         StringWriter text = new StringWriter();
-        DemoScenario.Results r = new DemoScenario(dir.resolve("out"), new PrintWriter(text), 2).run();
+        DemoScenario.Results r = new DemoScenario(dir.resolve("out"), new PrintWriter(text), 2,
+                DataOptions.context(java.util.List.of())).run();
         String report = text.toString();
         assertTrue(report.contains("an invented scenario"), report);
         // The lamp is described generically, never by a maker's trademark.
