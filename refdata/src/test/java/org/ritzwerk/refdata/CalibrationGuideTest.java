@@ -54,11 +54,11 @@ class CalibrationGuideTest {
 
     @Test
     void calibrateFromRawCountsAndApplyToASecondExposure(@TempDir Path folder) throws Exception {
-        DataRegistry registry = DataRegistry.builtIn();
-        double[] countsPerPixel = exposure(registry.lampLines(Species.parse("Ne I")), 9L);
+        DataContext data = DataContext.builtIn();
+        double[] countsPerPixel = exposure(data.lampLines(Species.parse("Ne I")), 9L);
 
         // --- README: Wavelength calibration ---
-        LampSet neon = LampSet.of(List.of(registry.lampLines(Species.parse("Ne I"))), Medium.air());
+        LampSet neon = LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
         Calibration calibration = Calibrator.defaults()                          // withThreshold, withDegree, ...
                 .calibrate(CalibrationProblem.builder(countsPerPixel).lamp(neon).build()); // .prior(...), .sigmas(...)
         DispersionSolution solution = calibration.solution();
@@ -71,7 +71,7 @@ class CalibrationGuideTest {
         assertTrue(calibration.solution().usedCount() >= 8, "lines used: " + solution.usedCount());
 
         // Apply the saved solution to a second exposure (another noise draw), as `calibrate --apply` does.
-        double[] second = exposure(registry.lampLines(Species.parse("Ne I")), 10L);
+        double[] second = exposure(data.lampLines(Species.parse("Ne I")), 10L);
         CalibrationFiles.Calibration saved = CalibrationFiles.read(folder.resolve("calibration.json"));
         String text = SpectrumFiles.withWavelengths(new SpectrumFiles.Spectrum("second.csv", second, null, null,
                 java.util.Map.of()), saved.solution(), "calibration.json");

@@ -28,8 +28,8 @@ class IdentificationGuideTest {
 
     @Test
     void identifyWithAVelocitySearchAndThePlasmaEstimate() {
-        DataRegistry registry = DataRegistry.builtIn();
-        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(NuclearData.builtIn().nucleus(Species.parse("H I")),
+        DataContext data = DataContext.builtIn();
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(data.nucleus(Species.parse("H I")),
                 Tier.QED);
         // The invented observation, made from the engine's own multiplets.
         Candidates truth = Candidates.inWindow(380e-9, 700e-9).hydrogenLike(Species.parse("H I"), hydrogen, 10, false)
@@ -55,7 +55,7 @@ class IdentificationGuideTest {
         double[] window = search.candidateWindow(peaks);                     // vacuum metres
         Candidates candidates = Candidates.inWindow(window[0], window[1])
                 .hydrogenLike(Species.parse("H I"), hydrogen, 30, false)    // n -> n' multiplets, strength g A
-                .lineList(registry.lampLines(Species.parse("Ne I")))        // and any line list
+                .lineList(data.lampLines(Species.parse("Ne I")))        // and any line list
                 .build();
         IdentificationSearch.Report report = search.run(peaks, candidates.catalog());
         Identification result = report.identification();

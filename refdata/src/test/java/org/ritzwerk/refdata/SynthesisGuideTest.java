@@ -29,17 +29,16 @@ class SynthesisGuideTest {
 
     @Test
     void aSceneWithAnIonAnAlkaliAtomALampListAContinuumAndNoise() {
-        NuclearData nuclear = NuclearData.builtIn();
-        DataRegistry registry = DataRegistry.builtIn();
-        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(nuclear.nucleus(Species.parse("H I")), Tier.DIRAC);
-        AlkaliAtom rubidium = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
-        LineList neon = registry.lampLines(Species.parse("Ne I"));
+        DataContext data = DataContext.builtIn();
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(data.nucleus(Species.parse("H I")), Tier.DIRAC);
+        AlkaliAtom rubidium = data.alkaliAtom(Species.parse("Rb-87 I"));
+        LineList neon = data.lampLines(Species.parse("Ne I"));
 
         // --- README: scene with an ion, an alkali atom, a lamp list, a continuum and noise ---
         Scene scene = Scene.builder(PixelGrid.linear(600, 800, 8000))
                 .hydrogenLike(Species.parse("H I"), hydrogen, 1)
-                .alkali(rubidium, 1e-3, nuclear.nucleus(Species.parse("Rb-87 I")))  // Boltzmann over its levels
-                .lineList(neon, nuclear::nucleus)                     // relative intensities, scaled to the ions
+                .alkali(rubidium, 1e-3, data.nucleus(Species.parse("Rb-87 I")))  // Boltzmann over its levels
+                .lineList(neon, data::nucleus)                     // relative intensities, scaled to the ions
                 .temperature(6000).medium(Medium.air()).instrument(Instrument.ofResolvingPower(10_000))
                 .continuum(nm -> Continuum.planckPerWavelength(nm * 1e-9, 6000), 50)
                 .noise(3.0, 7L)
