@@ -150,7 +150,9 @@ class UserGuideTest {
 
     @Test
     void aWholeScene() {
-        // Proton (CODATA 2018) and alpha particle (6.6446573357e-27 kg, CODATA 2018, from memory).
+        // Proton and alpha particle (6.6446573357e-27 kg), both CODATA 2018 (Tiesinga et al.,
+        // Rev. Mod. Phys. 93, 025010 (2021); the alpha mass has the digits of Debian scipy 1.10.1's
+        // scipy.constants.physical_constants["alpha particle mass"]).
         HydrogenLikeModel hydrogen = HydrogenLikeModel.of(new Nucleus(1, 1, PhysicalConstants.PROTON_MASS.value(), 1,
                 OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018"), Tier.DIRAC);
         HydrogenLikeModel heliumIon = HydrogenLikeModel.of(new Nucleus(2, 4, 6.6446573357e-27, 0,
