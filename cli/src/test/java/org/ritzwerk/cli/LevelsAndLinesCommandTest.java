@@ -41,7 +41,8 @@ class LevelsAndLinesCommandTest {
         assertEquals("1/2", twoS.get("j").asString());
         assertEquals("qed", twoS.get("model").asString());
         assertTrue(twoS.get("hyperfine_f").isNull());
-        // Kramida 2010 (via NIST ASD): 2s 2S1/2 at 82258.9543992821 cm-1.
+        // A. E. Kramida, At. Data Nucl. Data Tables 96, 586 (2010): 2s 2S1/2 at 82258.9543992821
+        // cm-1 (digits recalled; checked in PublishedHydrogenTest, which names the checks).
         assertEquals(82258.9543992821, twoS.get("energy_per_cm").asDouble(), 1e-4);
         assertEquals(0.0, levels.get(0).get("energy_per_cm").asDouble(), 0.0);
     }
