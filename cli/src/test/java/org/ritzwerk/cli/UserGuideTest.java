@@ -27,7 +27,10 @@ class UserGuideTest {
 
         assertEquals(1, table.size());
         assertEquals("Paschen alpha", table.seriesName(0));
+        // He II 4686, 4685.70 A in air (Sansonetti & Martin handbook; recalled), 468.701 nm in
+        // vacuum by the standard-air formula, c / 468.701 nm = 639.62 THz by hand.
         assertEquals(639.62, table.frequency(0) / 1e12, 0.01);
+        // 1 / A(2p -> 1s), A = 6.2649e8 s^-1 (Wiese & Fuhr, J. Phys. Chem. Ref. Data 38, 565 (2009)).
         assertEquals(1.596e-9, tau2p, 1e-12);
     }
 }
