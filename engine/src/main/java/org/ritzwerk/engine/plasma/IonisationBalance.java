@@ -29,9 +29,9 @@ public final class IonisationBalance {
      * Ionisation energy of neutral helium-4, 198 310.666 37 cm^-1, in J: D. Z. Kandula,
      * C. Gohle, T. J. Pinkert, W. Ubachs and K. S. E. Eikema, Phys. Rev. A 84, 062512 (2011),
      * whose abstract gives 5 945 204 212(6) MHz (divided by c = 29 979 245 800 cm/s:
-     * 198 310.666 374 cm^-1); the value the NIST Atomic Spectra Database lists for He I. Checked
-     * against the earlier measurement of K. S. E. Eikema, W. Ubachs, W. Vassen and
-     * W. Hogervorst, Phys. Rev. A 55 (March 1997), 198 310.6672(15) cm^-1.
+     * 198 310.666 374 cm^-1), which is, as we recall, the value the NIST Atomic Spectra Database
+     * lists for He I. Checked against the earlier measurement of K. S. E. Eikema, W. Ubachs,
+     * W. Vassen and W. Hogervorst, Phys. Rev. A 55 (March 1997), 198 310.6672(15) cm^-1.
      */
     public static final double HELIUM_I_IONISATION_ENERGY = 198_310.66637e2 * PhysicalConstants.H * PhysicalConstants.C;
 
