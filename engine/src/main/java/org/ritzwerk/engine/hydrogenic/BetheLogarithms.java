@@ -3,7 +3,7 @@ package org.ritzwerk.engine.hydrogenic;
 /**
  * Bethe logarithms ln k0(n, l) of hydrogen, n = 1 to 8 and every l (36 values), to nine
  * decimals. The published tabulation is G. W. F. Drake and R. A. Swainson, Phys. Rev. A 41, 1243
- * (1990), whose values the CODATA adjustments reprint for the states they use (e.g. P. J. Mohr,
+ * (1990), used in the CODATA adjustments' theory of hydrogen levels (e.g. P. J. Mohr,
  * B. N. Taylor and D. B. Newell, Rev. Mod. Phys. 84, 1527 (2012)). No readable copy of either
  * table was found for this project, so the values were recomputed from the definition (H. A.
  * Bethe, Phys. Rev. 72, 339 (1947); the normalisation of those tables for l &gt; 0) by

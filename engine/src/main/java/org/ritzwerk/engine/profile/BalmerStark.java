@@ -17,9 +17,9 @@ package org.ritzwerk.engine.profile;
  * Holtsmark normal field grows as Ne^(2/3) (H. R. Griem, Spectral Line Broadening by Plasmas
  * (Academic Press, 1974)); both exponents lie above 2/3, by 1.9 % and 2.2 %, as expected from
  * the electrons' impact broadening, which grows about as Ne. The prefactors have no independent
- * numeric check here. The fits are nearly independent of temperature and of the reduced mass of emitter and
- * perturber for these two lines, which is why they are the usual density diagnostic (common
- * practice).
+ * numeric check here. The fits are nearly independent of temperature and of the reduced mass of
+ * emitter and perturber for these two lines, which is why they are the usual density diagnostic
+ * (common practice).
  *
  * <p>The fits are used for densities from {@link #MIN_DENSITY} to {@link #MAX_DENSITY} m^-3,
  * the range the simulations cover as far as we recall it (from memory); outside it both
