@@ -55,6 +55,7 @@ class CliTest {
         assertEquals(2, lines.length);
         JsonNode wavelength = json.readTree(lines[0]);
         assertEquals("656.28(2) nm air", wavelength.get("input").asString());
+        // By hand: 656.28 nm in standard air is 656.4613 nm in vacuum (Morton 2000, eq. 8).
         assertEquals(656.461, wavelength.get("value").asDouble(), 1e-3);
         assertEquals("nm", wavelength.get("unit").asString());
         assertEquals("vacuum", wavelength.get("medium").asString());

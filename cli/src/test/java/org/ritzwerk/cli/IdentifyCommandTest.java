@@ -34,9 +34,10 @@ class IdentifyCommandTest {
 
     @Test
     void balmerPeaksInAirAreIdentified(@TempDir Path dir) throws IOException {
-        // H-alpha to H-delta air wavelengths 656.279, 486.135, 434.047, 410.174 nm (NIST Handbook
-        // of Basic Atomic Spectroscopic Data, strong lines of hydrogen; from memory), plus a peak
-        // that nothing explains.
+        // H-alpha to H-delta air wavelengths 656.279, 486.135, 434.047, 410.174 nm (J. E. Sansonetti
+        // and W. C. Martin, Handbook of Basic Atomic Spectroscopic Data, J. Phys. Chem. Ref. Data
+        // 34, 1559 (2005), strong lines of H I; digits recalled, from memory; checked by the
+        // model's lines in air, which must match them), plus a peak that nothing explains.
         Path peaks = dir.resolve("peaks.csv");
         Files.writeString(peaks, HEADER + "position,uncertainty,intensity\n410.174,0.003,80\n434.047,0.003,150\n"
                 + "486.135,0.003,400\n656.279,0.003,1500\n700.000,0.003,10\n", StandardCharsets.UTF_8);

@@ -41,7 +41,8 @@ class LevelsAndLinesCommandTest {
         assertEquals("1/2", twoS.get("j").asString());
         assertEquals("qed", twoS.get("model").asString());
         assertTrue(twoS.get("hyperfine_f").isNull());
-        // Kramida 2010 (via NIST ASD): 2s 2S1/2 at 82258.9543992821 cm-1.
+        // A. E. Kramida, At. Data Nucl. Data Tables 96, 586 (2010): 2s 2S1/2 at 82258.9543992821
+        // cm-1 (digits recalled; checked in PublishedHydrogenTest, which names the checks).
         assertEquals(82258.9543992821, twoS.get("energy_per_cm").asDouble(), 1e-4);
         assertEquals(0.0, levels.get(0).get("energy_per_cm").asDouble(), 0.0);
     }
@@ -52,7 +53,7 @@ class LevelsAndLinesCommandTest {
                 "--format", "json"));
         assertTrue(levels.get(0).get("lifetime_s").isNull(), "1s has no decay");
         // 2p: 1/A with A = 6.2649e8 s^-1 (Wiese & Fuhr 2009): 1.596 ns.
-        assertEquals(1.596e-9, levels.get(2).get("lifetime_s").asDouble(), 1e-12);
+        assertEquals(1.596e-9, levels.get(2).get("lifetime_s").asDouble(), 1e-12);      // Wiese & Fuhr 2009
         assertTrue(json(CliTest.run("levels", "--species", "H", "--n-max", "1", "--format", "json")).get(0)
                 .get("lifetime_s") == null, "no lifetime field unless asked");
     }
@@ -70,7 +71,8 @@ class LevelsAndLinesCommandTest {
                 NuclearData.builtIn().nucleus(Species.parse("H I")), Tier.QED)).multiplets(3, 4e14, 5e14);
         assertEquals(expected.frequency(0), alpha.get("frequency_hz").asDouble(), 0.0);
         assertEquals(expected.einsteinA(0), alpha.get("einstein_a_per_s").asDouble(), 0.0);
-        // Commonly quoted H-alpha: 656.28 nm in air, 656.46 nm in vacuum (common practice).
+        // Commonly quoted H-alpha: 656.28 nm in air, 656.46 nm in vacuum (common practice; the
+        // handbook's strong-lines table gives 6562.79 A in air), 1 / 656.461 nm = 15 233.2 cm-1 by hand.
         assertEquals(656.28, alpha.get("air_wavelength_nm").asDouble(), 0.005);
         assertEquals(656.46, alpha.get("vacuum_wavelength_nm").asDouble(), 0.005);
         assertEquals(15233.2, alpha.get("wavenumber_per_cm").asDouble(), 0.05);
@@ -82,6 +84,8 @@ class LevelsAndLinesCommandTest {
                 "--format", "json"));
         assertEquals(2, lyman.size());
         assertTrue(lyman.get(0).get("air_wavelength_nm").isNull());
+        // Lyman alpha 1215.67 A in vacuum (Sansonetti & Martin handbook, H I strong lines; recalled;
+        // 1 / 82 259.163 cm-1, the 2p level of Kramida 2010 weighted by 2j + 1, gives 121.5670 nm).
         assertEquals(121.567, lyman.get(0).get("vacuum_wavelength_nm").asDouble(), 0.001);
     }
 

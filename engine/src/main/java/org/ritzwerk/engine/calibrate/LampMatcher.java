@@ -18,9 +18,11 @@ import java.util.Objects;
  * invariant under a linear map, so a triplet pair whose middle peak lies within
  * {@code tolerance + 0.02 span} pixels of where the outer pair puts the middle line, and whose
  * dispersion lies in the prior, seeds a hypothesis. (Local triplets tolerate the curvature of the
- * dispersion, which distant pairs would not; the idea is that of the triangle and pattern
- * matching used by astronomical arc-lamp pipelines, e.g. PypeIt's wavelength calibration,
- * Prochaska et al., JOSS 5, 2308 (2020).) Each seed is grown: a straight line through the three
+ * dispersion, which distant pairs would not. The idea is the one-dimensional form of matching
+ * point lists by figures whose shape is invariant under the transformation sought: similar
+ * triangles, E. J. Groth, Astron. J. 91, 1244 (1986); ratios of sides as the invariant,
+ * F. G. Valdes, L. E. Campusano, J. D. Velasquez and P. B. Stetson, Publ. Astron. Soc. Pac.
+ * 107, 1119 (1995).) Each seed is grown: a straight line through the three
  * pairs predicts the strong peaks in a window twice as wide as the span matched so far, each
  * predicted peak is matched to the nearest line of the whole list (one-to-one, the closer peak
  * wins) when within {@code tolerance} pixels, and a polynomial of degree 1, then 2, then up to

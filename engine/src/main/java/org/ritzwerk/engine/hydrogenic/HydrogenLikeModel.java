@@ -31,8 +31,10 @@ import org.ritzwerk.constants.PhysicalConstants;
  * Sources: the Dirac-with-recoil and QED expressions follow the theory of hydrogen levels in the
  * CODATA adjustments (Mohr, Taylor, Newell; Eides, Grotch, Shelyuto, Phys. Rep. 342, 63 (2001)),
  * written here from memory; the Fermi contact formula is the textbook one (Bethe &amp; Salpeter,
- * sec. 22). The tests compare every tier with outside values (sympy's Dirac energies, hydrogen
- * levels of Kramida 2010, the measured 1S-2S, Lamb shift, fine-structure and 21-cm frequencies).
+ * sec. 22); the Bethe logarithms are recomputed (see {@code BetheLogarithms}). The tests check
+ * every tier against outside values (sympy's Dirac energies, hydrogen levels of Kramida 2010 to
+ * 1e-9, the measured 1S-2S to 1e-10, Lamb shift, fine-structure and 21-cm frequencies), which is
+ * how the formulas written from memory are checked.
  *
  * <p>Immutable and thread-safe. The physical constants are those of
  * {@link PhysicalConstants}; {@link #withFineStructureConstant(double)} varies alpha alone, for

@@ -17,15 +17,21 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
  * stages' ionisation energies and partition functions from a {@link HydrogenLikeModel}, the
  * partition function summed over n = 1 .. nMax ({@link #hydrogenLikePartition}). Neutral
  * helium's partition function is taken as 1, its 1s^2 ground state alone: its first excited
- * level lies 19.8 eV up (from memory), so the neglected part is below 0.2 % up to 30 000 K.
+ * level, 1s2s 3S1, lies 19.82 eV up (159 856 cm^-1, NIST Atomic Spectra Database He I levels;
+ * from memory, used only for this bound: 3 exp(-19.82 eV / kT) = 1.4e-3 at 30 000 K), so the
+ * neglected part is below 0.2 % up to 30 000 K.
  *
  * <p>Stateless and thread-safe.
  */
 public final class IonisationBalance {
 
     /**
-     * Ionisation energy of neutral helium, 198 310.666 37 cm^-1 (NIST Atomic Spectra Database,
-     * from the measurement of Kandula et al. 2011; value from memory), in J.
+     * Ionisation energy of neutral helium-4, 198 310.666 37 cm^-1, in J: D. Z. Kandula,
+     * C. Gohle, T. J. Pinkert, W. Ubachs and K. S. E. Eikema, Phys. Rev. A 84, 062512 (2011),
+     * whose abstract gives 5 945 204 212(6) MHz (divided by c = 29 979 245 800 cm/s:
+     * 198 310.666 374 cm^-1), which is, as we recall, the value the NIST Atomic Spectra Database
+     * lists for He I. Checked against the earlier measurement of K. S. E. Eikema, W. Ubachs,
+     * W. Vassen and W. Hogervorst, Phys. Rev. A 55 (March 1997), 198 310.6672(15) cm^-1.
      */
     public static final double HELIUM_I_IONISATION_ENERGY = 198_310.66637e2 * PhysicalConstants.H * PhysicalConstants.C;
 

@@ -11,10 +11,15 @@ package org.ritzwerk.engine.profile;
  *   H-beta:  FWHM = 4.800 nm (Ne / 1e23 m^-3)^0.68116
  * </pre>
  *
- * The coefficients were read in second-hand copies of the paper's fits (public plasma-diagnostic
- * code quoting the paper), not in the paper itself; they agree with what we recalled of it. The
- * fits are nearly independent of temperature and of the reduced mass of emitter and perturber
- * for these two lines, which is why they are the usual density diagnostic (common practice).
+ * The coefficients are from memory: neither the paper nor a publication quoting its fits could
+ * be read for this project, so the digits could not be compared with print. Independent check:
+ * the Stark width of a hydrogen line is set mainly by the quasi-static ion microfield, whose
+ * Holtsmark normal field grows as Ne^(2/3) (H. R. Griem, Spectral Line Broadening by Plasmas
+ * (Academic Press, 1974)); both exponents lie above 2/3, by 1.9 % and 2.2 %, as expected from
+ * the electrons' impact broadening, which grows about as Ne. The prefactors have no independent
+ * numeric check here. The fits are nearly independent of temperature and of the reduced mass of
+ * emitter and perturber for these two lines, which is why they are the usual density diagnostic
+ * (common practice).
  *
  * <p>The fits are used for densities from {@link #MIN_DENSITY} to {@link #MAX_DENSITY} m^-3,
  * the range the simulations cover as far as we recall it (from memory); outside it both

@@ -57,9 +57,12 @@ class IonisationBalanceTest {
         double[] direct = IonisationBalance.fractions(12_000, 1e21, new double[] {-hydrogen.energy(1, 0, 1)},
                 new double[] {IonisationBalance.hydrogenLikePartition(hydrogen, 12_000, 20), 1});
         assertEquals(Arrays.toString(direct), Arrays.toString(h));
-        // He I ionisation energy 24.587 eV (NIST ASD, from memory).
+        // He I ionisation energy 5 945 204 212(6) MHz = 24.5874 eV (Kandula et al., Phys. Rev. A
+        // 84, 062512 (2011), abstract; converted with the CODATA 2018 h, c and e).
         assertEquals(24.5874, IonisationBalance.HELIUM_I_IONISATION_ENERGY / PhysicalConstants.E, 1e-4);
-        // Alpha-particle mass 6.6446573357e-27 kg (CODATA 2018, from memory).
+        // Alpha-particle mass 6.6446573357e-27 kg (CODATA 2018, Tiesinga et al., Rev. Mod. Phys.
+        // 93, 025010 (2021); the same digits as Debian scipy 1.10.1's
+        // scipy.constants.physical_constants["alpha particle mass"]).
         Nucleus alpha = new Nucleus(2, 4, 6.6446573357e-27, 0, OptionalDouble.empty(), OptionalDouble.empty(), "test");
         double[] he = IonisationBalance.helium(HydrogenLikeModel.of(alpha, Tier.BOHR), 30_000, 1e22, 20);
         assertEquals(3, he.length);

@@ -11,8 +11,10 @@ import org.junit.jupiter.api.Test;
 /**
  * The Balmer Stark widths against the published fits of Gigosos, Gonzalez and Cardenoso,
  * Spectrochim. Acta B 58, 1489 (2003): FWHM(H-beta) = 4.800 nm (Ne / 1e23 m^-3)^0.68116 and
- * FWHM(H-alpha) = 1.098 nm (Ne / 1e23 m^-3)^0.67965 (coefficients read in second-hand copies
- * of the paper's fits). The values below are those fits evaluated by hand (4 digits).
+ * FWHM(H-alpha) = 1.098 nm (Ne / 1e23 m^-3)^0.67965. The coefficients are from memory (neither
+ * the paper nor a publication quoting the fits could be read; see {@link BalmerStark}); the
+ * values below are those fits evaluated by hand (4 digits), and {@link #exponentsFollowTheQuasiStaticLaw}
+ * is the independent check of the density dependence.
  */
 class BalmerStarkTest {
 
@@ -50,6 +52,17 @@ class BalmerStarkTest {
         double d = BalmerStark.electronDensity(BalmerStark.Line.BETA, 1.0);
         assertEquals(d * 0.02 / 0.68116, BalmerStark.electronDensityUncertainty(BalmerStark.Line.BETA, 1.0, 0.02),
                 d * 1e-12);
+    }
+
+    @Test
+    void exponentsFollowTheQuasiStaticLaw() {
+        // The local slope d ln(FWHM) / d ln(Ne) of both fits lies within 3 % above 2/3, the
+        // Holtsmark (quasi-static ion field) law (Griem, Spectral Line Broadening by Plasmas, 1974).
+        for (BalmerStark.Line line : BalmerStark.Line.values()) {
+            double slope = Math.log(BalmerStark.fwhmNanometres(line, 1e24) / BalmerStark.fwhmNanometres(line, 1e22))
+                    / Math.log(100);
+            assertTrue(slope > 2.0 / 3 && slope < 1.03 * 2 / 3, line + " slope " + slope);
+        }
     }
 
     @Test

@@ -23,7 +23,10 @@ class SceneTest {
     /** Proton (CODATA 2018 mass). */
     private static final Nucleus PROTON = new Nucleus(1, 1, PhysicalConstants.PROTON_MASS.value(), 1,
             OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018");
-    /** Alpha particle, 6.6446573357e-27 kg (CODATA 2018, from memory). */
+    /**
+     * Alpha particle, 6.6446573357e-27 kg (CODATA 2018, Tiesinga et al., Rev. Mod. Phys. 93,
+     * 025010 (2021); the digits of Debian scipy 1.10.1's physical_constants["alpha particle mass"]).
+     */
     private static final Nucleus ALPHA = new Nucleus(2, 4, 6.6446573357e-27, 0,
             OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018");
     private static final HydrogenLikeModel H = HydrogenLikeModel.of(PROTON, Tier.DIRAC);
