@@ -181,6 +181,45 @@ public final class HydrogenLikeLines {
     }
 
     /**
+     * One line found by its two levels: the E1 transition from the upper level n l j to the lower
+     * level n' l' j', with its frequency, line strength, A and f.
+     *
+     * @param upperN    upper principal quantum number, at most {@value #MAX_N}
+     * @param upperL    upper orbital quantum number
+     * @param upperTwoJ twice the upper j
+     * @param lowerN    lower principal quantum number
+     * @param lowerL    lower orbital quantum number
+     * @param lowerTwoJ twice the lower j
+     * @return a table of that one line
+     * @throws IllegalArgumentException naming the quantum number out of range, when the levels are
+     *         not joined by an electric-dipole line (Delta l = +-1, Delta j = 0, +-1), or when the
+     *         first level does not lie above the second in this model
+     */
+    public LineTable line(int upperN, int upperL, int upperTwoJ, int lowerN, int lowerL, int lowerTwoJ) {
+        HydrogenLikeModel.checkLevel(upperN, upperL, upperTwoJ);
+        HydrogenLikeModel.checkLevel(lowerN, lowerL, lowerTwoJ);
+        if (upperN > MAX_N || lowerN > MAX_N) {
+            throw new IllegalArgumentException("n must be at most " + MAX_N + ", got " + Math.max(upperN, lowerN));
+        }
+        if (Math.abs(upperL - lowerL) != 1 || Math.abs(upperTwoJ - lowerTwoJ) > 2) {
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT,
+                    "%s and %s are not joined by an electric-dipole line (needs Delta l = +-1, Delta j = 0, +-1)",
+                    Notation.level(upperN, upperL, upperTwoJ, -1), Notation.level(lowerN, lowerL, lowerTwoJ, -1)));
+        }
+        double upper = model.energy(upperN, upperL, upperTwoJ);
+        double lower = model.energy(lowerN, lowerL, lowerTwoJ);
+        if (!(upper > lower)) {
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT,
+                    "%s does not lie above %s in the %s model", Notation.level(upperN, upperL, upperTwoJ, -1),
+                    Notation.level(lowerN, lowerL, lowerTwoJ, -1), model.tier().id()));
+        }
+        LineTable.Builder lines = new LineTable.Builder();
+        add(lines, upperN, upperL, upperTwoJ, lowerN, lowerL, lowerTwoJ, (upper - lower) / PhysicalConstants.H,
+                RadialIntegrals.dipole(upperN, upperL, lowerN, lowerL));
+        return LineTable.sorted(lines, model.nucleus().z());
+    }
+
+    /**
      * @param n    principal quantum number
      * @param l    orbital quantum number
      * @param twoJ twice j

@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.hydrogenic;
 
 import java.util.Locale;
+import org.ritzwerk.quantity.Energy;
 import java.util.Objects;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Nucleus;
@@ -126,6 +127,34 @@ public final class HydrogenLikeModel {
     public double energy(int n, int l, int twoJ) {
         checkLevel(n, l, twoJ);
         return centroid(n, l, twoJ);
+    }
+
+    /**
+     * The level's energy above the ground level 1s1/2, as a typed quantity (what level tables
+     * and spectroscopists list).
+     *
+     * @param n    principal quantum number, at least 1
+     * @param l    orbital quantum number, 0 to n - 1
+     * @param twoJ twice the total angular momentum, 2l - 1 or 2l + 1 (and positive)
+     * @return {@code energy(n, l, twoJ) - energy(1, 0, 1)}, zero for the ground level, hyperfine
+     *         centroids in the {@link Tier#HYPERFINE} tier
+     * @throws IllegalArgumentException naming the quantum number out of range
+     */
+    public Energy excitationEnergy(int n, int l, int twoJ) {
+        return Energy.ofJoules(energy(n, l, twoJ) - energy(1, 0, 1));
+    }
+
+    /**
+     * The energy needed to ionise the ion from the level, as a positive typed quantity.
+     *
+     * @param n    principal quantum number, at least 1
+     * @param l    orbital quantum number, 0 to n - 1
+     * @param twoJ twice the total angular momentum, 2l - 1 or 2l + 1 (and positive)
+     * @return {@code -energy(n, l, twoJ)}: from the ground level, the ionisation energy of the ion
+     * @throws IllegalArgumentException naming the quantum number out of range
+     */
+    public Energy ionisationEnergy(int n, int l, int twoJ) {
+        return Energy.ofJoules(-energy(n, l, twoJ));
     }
 
     /**

@@ -41,6 +41,44 @@ public final class IonisationBalance {
     }
 
     /**
+     * The Saha prefactor 2 (2 pi m_e k T / h^2)^(3/2), the number density of free-electron states
+     * (spin included) at temperature T (Saha's equation, e.g. Griem, Principles of Plasma
+     * Spectroscopy (1997), common practice).
+     *
+     * @param temperature temperature in K, positive
+     * @return the prefactor in m^-3
+     * @throws IllegalArgumentException for a temperature that is not finite and positive
+     */
+    public static double sahaPrefactor(double temperature) {
+        positive("temperature", temperature, "K");
+        double kT = PhysicalConstants.K * temperature;
+        return 2 * Math.pow(2 * Math.PI * ELECTRON_MASS * kT / (PhysicalConstants.H * PhysicalConstants.H), 1.5);
+    }
+
+    /**
+     * Saha's ratio of the number densities of two successive stages,
+     * n_(k+1) / n_k = (prefactor / n_e) (U_(k+1) / U_k) exp(-chi_k / kT).
+     *
+     * @param temperature      temperature in K, positive
+     * @param electronDensity  electron density in m^-3, positive
+     * @param ionisationEnergy ionisation energy chi_k of the lower stage in J, positive
+     * @param lowerPartition   partition function U_k of the lower stage, positive
+     * @param upperPartition   partition function U_(k+1) of the upper stage, positive
+     * @return n_(k+1) / n_k; may overflow to infinity or underflow to 0 at extreme conditions
+     *         (use {@link #fractions} for the stages' shares, which stays finite)
+     * @throws IllegalArgumentException naming the argument out of range
+     */
+    public static double sahaRatio(double temperature, double electronDensity, double ionisationEnergy,
+            double lowerPartition, double upperPartition) {
+        positive("electron density", electronDensity, "m^-3");
+        positive("ionisation energy", ionisationEnergy, "J");
+        positive("partition function of the lower stage", lowerPartition, "");
+        positive("partition function of the upper stage", upperPartition, "");
+        return sahaPrefactor(temperature) / electronDensity * upperPartition / lowerPartition
+                * Math.exp(-ionisationEnergy / (PhysicalConstants.K * temperature));
+    }
+
+    /**
      * @param temperature       temperature in K, positive
      * @param electronDensity   electron density in m^-3, positive
      * @param ionisationEnergies ionisation energy of stage k to k+1 in J, one per stage but the
