@@ -84,7 +84,9 @@ public final class SyntheticSpectrumFiles {
             Writer out) throws IOException {
         checkDescription(description);
         checkLine("grid kind", kind);
-        checkPixels(spectrum);
+        double[] expected = spectrum.expectedCounts();
+        double[] counts = spectrum.counts();
+        checkPixels(expected, counts);
         out.write("# " + SpectrumFiles.FORMAT + " " + SpectrumFiles.VERSION + "\n");
         out.write("# axis: " + axis(spectrum.grid(), medium, kind) + "\n");
         for (Map.Entry<String, ?> entry : description.entrySet()) {
@@ -92,8 +94,6 @@ public final class SyntheticSpectrumFiles {
         }
         out.write("wavelength_nm,expected_counts,counts\n");
         PixelGrid grid = spectrum.grid();
-        double[] expected = spectrum.expectedCounts();
-        double[] counts = spectrum.counts();
         StringBuilder row = new StringBuilder();
         for (int p = 0; p < grid.pixels(); p++) {
             row.setLength(0);
@@ -118,7 +118,10 @@ public final class SyntheticSpectrumFiles {
     public static void writeJson(SyntheticSpectrum spectrum, Medium medium, String kind, Map<String, ?> description,
             List<String> notes, Writer out) throws IOException {
         checkDescription(description);
-        checkPixels(spectrum);
+        checkLine("grid kind", kind);
+        double[] expected = spectrum.expectedCounts();
+        double[] counts = spectrum.counts();
+        checkPixels(expected, counts);
         Scene.Lines lines = spectrum.lines();
         for (int i = 0; i < lines.size(); i++) {
             SpectrumLineFiles.check(i, lines.position(i), spectrum.lineCounts(i), lines.gaussianFwhm(i),
@@ -170,8 +173,8 @@ public final class SyntheticSpectrumFiles {
                 g.writeNumber(grid.centre(p));
             }
             g.writeEndArray();
-            writeArray(g, "expected_counts", spectrum.expectedCounts());
-            writeArray(g, "counts", spectrum.counts());
+            writeArray(g, "expected_counts", expected);
+            writeArray(g, "counts", counts);
             g.writeName("lines");
             g.writeStartArray();
             for (int i = 0; i < lines.size(); i++) {
@@ -236,9 +239,7 @@ public final class SyntheticSpectrumFiles {
         }
     }
 
-    private static void checkPixels(SyntheticSpectrum spectrum) {
-        double[] expected = spectrum.expectedCounts();
-        double[] counts = spectrum.counts();
+    private static void checkPixels(double[] expected, double[] counts) {
         for (int p = 0; p < counts.length; p++) {
             if (!Double.isFinite(expected[p]) || !Double.isFinite(counts[p])) {
                 throw new IllegalArgumentException("pixel " + p + ": counts must be finite, got expected "
