@@ -2,7 +2,6 @@ package org.ritzwerk.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -42,6 +41,9 @@ import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.CalibrationFiles;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.OutputFiles;
+import org.ritzwerk.refdata.PeakFiles;
+import org.ritzwerk.refdata.SpectrumFiles;
 
 /**
  * The demo's invented scenario, run end to end with the library on data it generates itself
@@ -315,8 +317,11 @@ final class DemoScenario {
                 }
             }
         }
-        Plots.lineChart(plotFile, "H-D-He discharge, Wrenfield Bench (invented): identified lines",
-                "wavelength (nm, standard air, from the neon calibration)", "counts per pixel", x, counts, labels);
+        try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
+            Plots.lineChart(batch, plotFile, "H-D-He discharge, Wrenfield Bench (invented): identified lines",
+                    "wavelength (nm, standard air, from the neon calibration)", "counts per pixel", x, counts, labels);
+            batch.commit();
+        }
         results.files.add(plotFile);
         out.println();
     }
@@ -542,25 +547,21 @@ final class DemoScenario {
     /** The discharge's peaks in the ritzwerk-peaks format, for {@code ritzwerk identify}. */
     private static void writePeaks(Path file, Peaks peaks, DispersionSolution solution, double[] nm, double[] nmSigma)
             throws IOException {
-        StringBuilder text = new StringBuilder("# ritzwerk-peaks 1\n# id: wrenfield-discharge\n")
-                .append("# title: peaks of the H-D-He discharge (demo)\n")
-                .append("# source: ritzwerk demo, invented scenario, calibrated with calibration.json\n")
-                .append("# provenance: computed\n# version: 1\n# position-unit: nm\n# medium: air\n")
-                .append("position,uncertainty,intensity,width\n");
-        for (int k = 0; k < nm.length; k++) {
-            double width = peaks.fwhm(k) * Math.abs(solution.dispersionAt(peaks.centre(k)));
-            text.append(String.format(Locale.ROOT, "%.5f,%.5f,%.6g,%.5f%n", nm[k], nmSigma[k],
-                    Math.max(peaks.flux(k), 1e-9), width));
+        int n = nm.length;
+        double[] intensities = new double[n];
+        double[] widths = new double[n];
+        for (int k = 0; k < n; k++) {
+            intensities[k] = Math.max(peaks.flux(k), 1e-9);
+            widths[k] = peaks.fwhm(k) * Math.abs(solution.dispersionAt(peaks.centre(k)));
         }
-        Files.writeString(file, text, StandardCharsets.UTF_8);
+        PeakFiles.Peaks list = new PeakFiles.Peaks("wrenfield-discharge", Unit.NANOMETRE, Medium.air(), nm, nmSigma,
+                intensities, widths, new int[n]);
+        OutputFiles.writeString(file, PeakFiles.writeCsv(list, "peaks of the H-D-He discharge (demo)",
+                "ritzwerk demo, invented scenario, calibrated with calibration.json", "computed", "1"));
     }
 
     private static void writeCounts(Path file, double[] counts, String what) throws IOException {
-        StringBuilder text = new StringBuilder("# ritzwerk-spectrum 1\n# source: ").append(what).append('\n');
-        text.append("pixel,counts\n");
-        for (int p = 0; p < counts.length; p++) {
-            text.append(p).append(',').append(String.format(Locale.ROOT, "%.6g", counts[p])).append('\n');
-        }
-        Files.writeString(file, text, StandardCharsets.UTF_8);
+        OutputFiles.writeString(file, SpectrumFiles.writeCsv(new SpectrumFiles.Spectrum(file.getFileName().toString(),
+                counts, null, null, java.util.Map.of("source", what))));
     }
 }

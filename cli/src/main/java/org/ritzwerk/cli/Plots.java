@@ -20,6 +20,7 @@ import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.chart.ui.TextAnchor;
 import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
+import org.ritzwerk.refdata.OutputFiles;
 
 /** PNG charts drawn with JFreeChart, headless. */
 final class Plots {
@@ -36,8 +37,10 @@ final class Plots {
     }
 
     /**
-     * A line chart of y against x, with labels, written as a PNG.
+     * A line chart of y against x, with labels, staged as a PNG (moved into place when the batch
+     * commits).
      *
+     * @param batch  the batch of the command's outputs
      * @param file   the PNG to write
      * @param title  chart title
      * @param xTitle x axis title with its unit
@@ -47,7 +50,7 @@ final class Plots {
      * @param labels labels to draw (at most a few dozen read well)
      * @throws IOException when the file cannot be written
      */
-    static void lineChart(Path file, String title, String xTitle, String yTitle, double[] x, double[] y,
+    static void lineChart(OutputFiles.Batch batch, Path file, String title, String xTitle, String yTitle, double[] x, double[] y,
             List<Label> labels) throws IOException {
         System.setProperty("java.awt.headless", "true");
         XYSeries series = new XYSeries(yTitle, false, true);
@@ -93,7 +96,7 @@ final class Plots {
         yAxis.setUpperBound(upper);
         JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, false);
         chart.setBackgroundPaint(Color.WHITE);
-        ChartUtils.saveChartAsPNG(file.toFile(), chart, 1400, CHART_PIXELS);
+        batch.bytes(file, out -> ChartUtils.writeChartAsPNG(out, chart, 1400, CHART_PIXELS));
     }
 
     /**
@@ -142,7 +145,7 @@ final class Plots {
         plot.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(1.0f)));
         JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, true);
         chart.setBackgroundPaint(Color.WHITE);
-        ChartUtils.saveChartAsPNG(file.toFile(), chart, 1200, 600);
+        OutputFiles.writeBytes(file, out -> ChartUtils.writeChartAsPNG(out, chart, 1200, 600));
     }
 
     /**

@@ -2,10 +2,6 @@ package org.ritzwerk.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.io.StringWriter;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -25,14 +21,14 @@ import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.OutputFiles;
+import org.ritzwerk.refdata.SpectrumLineFiles;
+import org.ritzwerk.refdata.SyntheticSpectrumFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
-import tools.jackson.databind.json.JsonMapper;
-import tools.jackson.databind.node.ArrayNode;
-import tools.jackson.databind.node.ObjectNode;
 
 /** {@code ritzwerk synth}: a synthetic emission spectrum of one-electron ions with known truth. */
 @Command(name = "synth",
@@ -178,6 +174,7 @@ final class SynthCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
+        checkOutputs();
         if (pixels < 2 || pixels > 50_000_000) {
             throw new IllegalArgumentException("--pixels must be 2 to 50000000, got " + pixels);
         }
@@ -265,16 +262,28 @@ final class SynthCommand implements Callable<Integer> {
             spec.commandLine().getErr().println("note: " + note);
         }
         spec.commandLine().getErr().flush();
-        if (format.equals("json")) {
-            emit(out, json(spectrum, scene));
-        } else {
-            writeSpectrum(spectrum);
-        }
-        if (truth != null) {
-            writeTruth(spectrum);
-        }
-        if (plot != null) {
-            drawPlot(spectrum);
+        Medium axis = AxisMedium.of(medium);
+        Map<String, Object> description = description();
+        OutputFiles.TextContent spectrumText = format.equals("json")
+                ? w -> SyntheticSpectrumFiles.writeJson(spectrum, axis, gridName(), description, scene.notes(), w)
+                : w -> SyntheticSpectrumFiles.writeCsv(spectrum, axis, gridName(), description, w);
+        // Every file is written to a temporary file beside it and moved into place only at the end.
+        try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
+            if (out != null) {
+                batch.text(out, spectrumText);
+            }
+            if (truth != null) {
+                batch.text(truth, w -> SpectrumLineFiles.writeCsv(spectrum, axis, w));
+            }
+            if (plot != null) {
+                drawPlot(batch, spectrum);
+            }
+            if (out == null) {
+                PrintWriter stdout = spec.commandLine().getOut();
+                spectrumText.writeTo(stdout);
+                stdout.flush();
+            }
+            batch.commit();
         }
         return 0;
     }
@@ -388,29 +397,35 @@ final class SynthCommand implements Callable<Integer> {
         option("--continuum-counts", () -> builder.continuum(density, continuumCounts));
     }
 
-    private void writeSpectrum(SyntheticSpectrum spectrum) throws IOException {
-        PixelGrid grid = spectrum.grid();
-        double[] expected = spectrum.expectedCounts();
-        double[] counts = spectrum.counts();
-        StringWriter text = new StringWriter();
-        PrintWriter w = new PrintWriter(text);
-        w.println("# ritzwerk-spectrum 1");
-        w.println("# axis: wavelength nm " + medium + " (pixel centres; " + gridName() + " pixels from "
-                + fmt(grid.edge(0)) + " to " + fmt(grid.edge(grid.pixels())) + ")");
-        for (Map.Entry<String, Object> entry : description().entrySet()) {
-            w.println("# " + entry.getKey() + ": " + entry.getValue());
+    /**
+     * Refuses, before any work, outputs that name the same file or an input, and outputs whose
+     * folder is missing or cannot be written.
+     */
+    private void checkOutputs() {
+        List<OutputFiles.Named> inputs = new ArrayList<>();
+        inputs.add(new OutputFiles.Named("--continuum-file", continuumFile));
+        for (String set : lineSets) {
+            try {
+                inputs.add(new OutputFiles.Named("--lines", Path.of(set)));
+            } catch (java.nio.file.InvalidPathException e) {
+                // a data set id, not a file
+            }
         }
-        w.println("wavelength_nm,expected_counts,counts");
-        for (int p = 0; p < grid.pixels(); p++) {
-            w.println(fmt(grid.centre(p)) + "," + String.format(Locale.ROOT, "%.6g", expected[p]) + ","
-                    + String.format(Locale.ROOT, "%.6g", counts[p]));
+        for (Path file : data.files) {
+            inputs.add(new OutputFiles.Named("--data", file));
         }
-        w.flush();
-        emit(out, text.toString());
+        OutputFiles.check(List.of(new OutputFiles.Named("--out", out), new OutputFiles.Named("--truth", truth),
+                new OutputFiles.Named("--plot", plot)), inputs);
     }
 
-    /** The scene as written in the files' headers (CSV comments, the JSON "scene" object). */
+    /** The scene as written in the files' headers (CSV comments, the JSON "scene" object), one line per value. */
     private Map<String, Object> description() {
+        Map<String, Object> d = scene();
+        d.replaceAll((key, value) -> value instanceof String ? ((String) value).replaceAll("\\s+", " ").strip() : value);
+        return d;
+    }
+
+    private Map<String, Object> scene() {
         Map<String, Object> d = new LinkedHashMap<>();
         d.put("species", ions.species.isEmpty() ? "none" : String.join(",", ions.species));
         d.put("lines", lineSets.isEmpty() ? "none" : String.join(",", lineSets));
@@ -429,77 +444,7 @@ final class SynthCommand implements Callable<Integer> {
         return d;
     }
 
-    private String json(SyntheticSpectrum spectrum, Scene scene) {
-        JsonMapper mapper = JsonMapper.builder().build();
-        ObjectNode root = mapper.createObjectNode();
-        root.put("format", "ritzwerk-spectrum");
-        root.put("version", 1);
-        ObjectNode axis = root.putObject("axis");
-        axis.put("quantity", "wavelength");
-        axis.put("unit", "nm");
-        axis.put("medium", medium);
-        axis.put("grid", gridName());
-        ObjectNode sceneNode = root.putObject("scene");
-        for (Map.Entry<String, Object> entry : description().entrySet()) {
-            Object v = entry.getValue();
-            if (v instanceof Double) {
-                sceneNode.put(entry.getKey(), (Double) v);
-            } else if (v instanceof Boolean) {
-                sceneNode.put(entry.getKey(), (Boolean) v);
-            } else {
-                sceneNode.put(entry.getKey(), String.valueOf(v));
-            }
-        }
-        ArrayNode notes = root.putArray("notes");
-        scene.notes().forEach(notes::add);
-        PixelGrid grid = spectrum.grid();
-        ArrayNode edges = root.putArray("pixel_edges_nm");
-        for (int p = 0; p <= grid.pixels(); p++) {
-            edges.add(grid.edge(p));
-        }
-        ArrayNode centres = root.putArray("wavelength_nm");
-        for (int p = 0; p < grid.pixels(); p++) {
-            centres.add(grid.centre(p));
-        }
-        ArrayNode expected = root.putArray("expected_counts");
-        for (double v : spectrum.expectedCounts()) {
-            expected.add(v);
-        }
-        ArrayNode counts = root.putArray("counts");
-        for (double v : spectrum.counts()) {
-            counts.add(v);
-        }
-        ArrayNode lines = root.putArray("lines");
-        Scene.Lines l = spectrum.lines();
-        for (int i = 0; i < l.size(); i++) {
-            ObjectNode line = lines.addObject();
-            line.put("wavelength_nm", l.position(i));
-            line.put("counts", spectrum.lineCounts(i));
-            line.put("doppler_fwhm_nm", l.gaussianFwhm(i));
-            line.put("lorentz_fwhm_nm", l.lorentzFwhm(i));
-            line.put("line", l.label(i));
-        }
-        return mapper.writeValueAsString(root) + System.lineSeparator();
-    }
-
-    private void writeTruth(SyntheticSpectrum spectrum) throws IOException {
-        StringWriter text = new StringWriter();
-        PrintWriter w = new PrintWriter(text);
-        w.println("# ritzwerk-spectrum-lines 1");
-        w.println("# counts: the line's expected counts summed over all pixels (before noise; less where it");
-        w.println("#   lies near or beyond an end of the spectrum)");
-        w.println("wavelength_nm,counts,doppler_fwhm_nm,lorentz_fwhm_nm,line");
-        Scene.Lines lines = spectrum.lines();
-        for (int i = 0; i < lines.size(); i++) {
-            w.println(fmt(lines.position(i)) + "," + String.format(Locale.ROOT, "%.6g", spectrum.lineCounts(i)) + ","
-                    + String.format(Locale.ROOT, "%.4g", lines.gaussianFwhm(i)) + ","
-                    + String.format(Locale.ROOT, "%.4g", lines.lorentzFwhm(i)) + "," + lines.label(i));
-        }
-        w.flush();
-        emit(truth, text.toString());
-    }
-
-    private void drawPlot(SyntheticSpectrum spectrum) throws IOException {
+    private void drawPlot(OutputFiles.Batch batch, SyntheticSpectrum spectrum) throws IOException {
         PixelGrid grid = spectrum.grid();
         double[] x = new double[grid.pixels()];
         for (int p = 0; p < x.length; p++) {
@@ -522,20 +467,9 @@ final class SynthCommand implements Callable<Integer> {
                 labels.add(new Plots.Label(at, lines.label(i)));
             }
         }
-        Plots.lineChart(plot, "Synthetic spectrum: " + emitters() + ", T = " + temperature + " K"
+        Plots.lineChart(batch, plot, "Synthetic spectrum: " + emitters() + ", T = " + temperature + " K"
                 + (electronDensity == null ? "" : ", ne = " + electronDensity + " m^-3"),
                 "wavelength (nm, " + medium + ")", "counts per pixel", x, spectrum.counts(), labels);
-    }
-
-    private void emit(Path path, String content) throws IOException {
-        if (path == null) {
-            spec.commandLine().getOut().print(content);
-            spec.commandLine().getOut().flush();
-            return;
-        }
-        try (Writer writer = Files.newBufferedWriter(path, StandardCharsets.UTF_8)) {
-            writer.write(content);
-        }
     }
 
     private String emitters() {

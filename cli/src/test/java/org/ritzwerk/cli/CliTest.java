@@ -179,7 +179,8 @@ class CliTest {
         Run synth = run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm", "--temperature", "8000",
                 "--out", missingFolder);
         assertEquals(2, synth.code());
-        assertEquals("ritzwerk synth: no such file or folder: " + missingFolder, synth.err().strip());
+        assertEquals("ritzwerk synth: --out " + missingFolder + ": the folder " + dir.resolve("no-such-folder")
+                + " does not exist", synth.err().strip());
         Run calibrate = run("calibrate", dir.resolve("absent.csv").toString(), "--lamp", "Ne I");
         assertEquals(2, calibrate.code());
         assertTrue(calibrate.err().contains("absent.csv: no such file"), calibrate.err());

@@ -278,6 +278,131 @@ class SynthCommandTest {
         assertEquals(expected, d2 / d1, 1e-4 * expected);
     }
 
+    private static final String[] SCENE = {"synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
+        "--temperature", "8000", "--pixels", "200", "--no-noise"};
+
+    private static List<String> folder(Path dir) throws IOException {
+        try (var files = Files.list(dir)) {
+            return files.map(f -> f.getFileName().toString()).sorted().toList();
+        }
+    }
+
+    @Test
+    void twoOutputsOnOneFileAreRefusedBeforeAnyWork(@TempDir Path dir) throws IOException {
+        Path a = dir.resolve("a.csv");
+        Files.writeString(a, "precious\n");
+        CliTest.Run run = CliTest.run(concat(SCENE, "--out", a.toString(), "--truth", a.toString()));
+        assertEquals(2, run.code());
+        assertEquals("ritzwerk synth: --out and --truth name the same file: " + a + "; give each output its own file",
+                run.err().strip());
+        assertEquals("precious\n", Files.readString(a));
+        // The same file by another spelling, and the plot.
+        CliTest.Run other = CliTest.run(concat(SCENE, "--truth", a.toString(), "--plot",
+                dir.resolve(".").resolve("a.csv").toString()));
+        assertEquals(2, other.code());
+        assertTrue(other.err().contains("--truth and --plot name the same file"), other.err());
+        assertEquals("precious\n", Files.readString(a));
+        assertEquals(List.of("a.csv"), folder(dir));
+    }
+
+    @Test
+    void anOutputThatIsAnInputIsRefused(@TempDir Path dir) throws IOException {
+        Path shape = dir.resolve("shape.csv");
+        String ramp = "wavelength_nm,density\n600,0\n700,10\n";
+        Files.writeString(shape, ramp);
+        CliTest.Run continuum = CliTest.run(concat(SCENE, "--continuum-file", shape.toString(), "--out",
+                shape.toString()));
+        assertEquals(2, continuum.code());
+        assertEquals("ritzwerk synth: --out " + shape + " is the input given with --continuum-file; writing it would"
+                + " destroy the input", continuum.err().strip());
+        assertEquals(ramp, Files.readString(shape));
+        Path list = dir.resolve("my-lines.csv");
+        String lines = "# ritzwerk-lines 1\n# id: my-lines\n# title: two invented lines\n# source: invented for tests\n"
+                + "# provenance: measured\n# version: 1\n# kind: lamp-lines\n# position-unit: nm\n# medium: vacuum\n"
+                + "species,position,intensity\nNe I,652,100\nNe I,655,50\n";
+        Files.writeString(list, lines);
+        CliTest.Run truth = CliTest.run(concat(SCENE, "--lines", list.toString(), "--truth", list.toString()));
+        assertEquals(2, truth.code());
+        assertTrue(truth.err().contains("--truth " + list + " is the input given with --lines"), truth.err());
+        CliTest.Run plot = CliTest.run(concat(SCENE, "--data", list.toString(), "--plot", list.toString()));
+        assertEquals(2, plot.code());
+        assertTrue(plot.err().contains("--plot " + list + " is the input given with --data"), plot.err());
+        assertEquals(lines, Files.readString(list));
+        // Given as a data set, not as an output, the same file draws its lines.
+        assertEquals(0, CliTest.run(concat(SCENE, "--lines", list.toString(), "--out",
+                dir.resolve("s.csv").toString())).code());
+    }
+
+    @Test
+    void anUnwritableOutputIsRefusedBeforeTheOthersAreTouched(@TempDir Path dir) throws IOException {
+        Path keep = dir.resolve("keep.csv");
+        Files.writeString(keep, "precious\n");
+        String missing = dir.resolve("no-such-folder").resolve("t.csv").toString();
+        CliTest.Run run = CliTest.run(concat(SCENE, "--out", keep.toString(), "--truth", missing));
+        assertEquals(2, run.code());
+        assertEquals("ritzwerk synth: --truth " + missing + ": the folder " + dir.resolve("no-such-folder")
+                + " does not exist", run.err().strip());
+        assertEquals("precious\n", Files.readString(keep));
+        CliTest.Run folderAsFile = CliTest.run(concat(SCENE, "--out", keep.toString(), "--plot", dir.toString()));
+        assertEquals(2, folderAsFile.code());
+        assertTrue(folderAsFile.err().contains("--plot " + dir + ": is a folder, not a file"), folderAsFile.err());
+        if (Files.isDirectory(Path.of("/proc/self"))) {
+            // A folder nobody can create files in, not even root.
+            CliTest.Run locked = CliTest.run(concat(SCENE, "--out", keep.toString(), "--truth", "/proc/t.csv"));
+            assertEquals(2, locked.code());
+            assertTrue(locked.err().startsWith("ritzwerk synth: --truth /proc/t.csv: cannot write in the folder /proc ("),
+                    locked.err());
+        }
+        assertEquals("precious\n", Files.readString(keep));
+        assertEquals(List.of("keep.csv"), folder(dir));
+    }
+
+    @Test
+    void aFailingRunLeavesThePreviousFilesAsTheyWere(@TempDir Path dir) throws IOException {
+        Path keep = dir.resolve("keep.csv");
+        Path truth = dir.resolve("truth.csv");
+        Files.writeString(keep, "precious\n");
+        Files.writeString(truth, "also precious\n");
+        // Passes the checks, then fails while rendering: no line of H I between 700 and 800 nm.
+        CliTest.Run run = CliTest.run("synth", "--species", "H I", "--from", "700 nm", "--to", "800 nm",
+                "--temperature", "8000", "--out", keep.toString(), "--truth", truth.toString());
+        assertEquals(2, run.code());
+        assertEquals("precious\n", Files.readString(keep));
+        assertEquals("also precious\n", Files.readString(truth));
+        assertEquals(List.of("keep.csv", "truth.csv"), folder(dir));
+        // A run that succeeds replaces both and leaves no temporary file.
+        assertEquals(0, CliTest.run(concat(SCENE, "--out", keep.toString(), "--truth", truth.toString())).code());
+        assertTrue(Files.readString(keep).startsWith("# ritzwerk-spectrum 1\n"));
+        assertTrue(Files.readString(truth).startsWith("# ritzwerk-spectrum-lines 1\n# medium: vacuum\n"));
+        assertEquals(List.of("keep.csv", "truth.csv"), folder(dir));
+    }
+
+    @Test
+    void everyOutputReadsBackWithTheLibrarysReaders(@TempDir Path dir) throws IOException {
+        Path csv = dir.resolve("s.csv");
+        Path json = dir.resolve("s.json");
+        Path truth = dir.resolve("t.csv");
+        String[] scene = {"synth", "--species", "H I", "--from", "640 nm air", "--to", "670 nm air", "--medium", "air",
+            "--temperature", "9000", "--pixels", "300", "--read-noise", "2", "--seed", "4"};
+        assertEquals(0, CliTest.run(concat(scene, "--out", csv.toString(), "--truth", truth.toString())).code());
+        assertEquals(0, CliTest.run(concat(scene, "--out", json.toString(), "--format", "json")).code());
+        org.ritzwerk.refdata.SpectrumFiles.Spectrum fromCsv = org.ritzwerk.refdata.SpectrumFiles.read(csv);
+        org.ritzwerk.refdata.SyntheticSpectrumFiles.Document fromJson =
+                org.ritzwerk.refdata.SyntheticSpectrumFiles.readJson(json);
+        // The same scene and seed: the CSV's columns are the JSON's arrays, bit for bit.
+        assertTrue(Arrays.equals(fromJson.counts(), fromCsv.counts()));
+        assertTrue(Arrays.equals(fromJson.expectedCounts(), fromCsv.expectedCounts()));
+        assertTrue(Arrays.equals(fromJson.wavelengths(), fromCsv.wavelengths()));
+        assertEquals("9000.0", fromCsv.header().get("temperature-k"));
+        assertEquals(9000.0, fromJson.scene().get("temperature-k"));
+        assertEquals(org.ritzwerk.medium.Medium.air(), fromJson.medium());
+        org.ritzwerk.refdata.SpectrumLineFiles.SpectrumLines lines = org.ritzwerk.refdata.SpectrumLineFiles.read(truth);
+        assertEquals(org.ritzwerk.medium.Medium.air(), lines.medium());
+        assertEquals(fromJson.lines().labels(), lines.labels());
+        assertTrue(Arrays.equals(fromJson.lines().counts(), lines.counts()));
+        assertTrue(lines.labels().contains("H I Balmer alpha"), lines.labels().toString());
+    }
+
     private static String[] lastRow(Path file) throws IOException {
         List<String> lines = Files.readAllLines(file, StandardCharsets.UTF_8);
         return lines.get(lines.size() - 1).split(",");

@@ -27,8 +27,9 @@ import tools.jackson.databind.json.JsonMapper;
  * Unknown columns are an error, so a misspelt one is not lost.
  *
  * <p>JSON: one object with {@code "format": "ritzwerk-spectrum"}, {@code "version": 1}, the
- * array {@code counts}, and optionally {@code counts_sigma} and {@code wavelength_nm} of the same
- * length (other members, such as those {@code synth} writes, are allowed and ignored).
+ * array {@code counts}, and optionally {@code counts_sigma}, {@code wavelength_nm} and
+ * {@code expected_counts} of the same length (other members, such as those {@code synth} writes,
+ * are allowed and ignored here; {@link SyntheticSpectrumFiles} reads them all).
  *
  * <p>Every bad row is reported with file, line and column name in one {@link DataFileException}.
  * Stateless and thread-safe.
@@ -54,10 +55,25 @@ public final class SpectrumFiles {
      * @param counts     counts per pixel
      * @param sigmas     standard uncertainties per pixel, or null when the file gives none
      * @param wavelengths wavelengths in nm per pixel as written, or null
+     * @param expectedCounts expected counts per pixel before noise (a synthetic spectrum's), or null
      * @param header     the {@code # key: value} lines of a CSV file, in order (empty for JSON)
      */
     public record Spectrum(String source, double[] counts, double[] sigmas, double[] wavelengths,
-            Map<String, String> header) {
+            double[] expectedCounts, Map<String, String> header) {
+
+        /**
+         * A spectrum without expected counts.
+         *
+         * @param source      the file name, for messages
+         * @param counts      counts per pixel
+         * @param sigmas      standard uncertainties per pixel, or null
+         * @param wavelengths wavelengths in nm per pixel, or null
+         * @param header      the header entries
+         */
+        public Spectrum(String source, double[] counts, double[] sigmas, double[] wavelengths,
+                Map<String, String> header) {
+            this(source, counts, sigmas, wavelengths, null, header);
+        }
 
         /** @return number of pixels */
         public int pixels() {
@@ -130,7 +146,8 @@ public final class SpectrumFiles {
     /**
      * Writes a spectrum in the CSV encoding: the format line, its header entries as
      * {@code # key: value} lines, then {@code pixel}, {@code wavelength_nm} (when it has
-     * wavelengths), {@code counts} and {@code counts_sigma} (when it has them), every number the
+     * wavelengths), {@code expected_counts} (when it has them), {@code counts} and
+     * {@code counts_sigma} (when it has them), every number the
      * shortest decimal that reads back as the same double, so {@link #read(String, String)} gives
      * the same values bit for bit.
      *
@@ -152,10 +169,13 @@ public final class SpectrumFiles {
         double[] counts = spectrum.counts();
         double[] sigmas = spectrum.sigmas();
         double[] wavelengths = spectrum.wavelengths();
-        text.append("pixel").append(wavelengths != null ? ",wavelength_nm" : "").append(",counts")
+        double[] expected = spectrum.expectedCounts();
+        text.append("pixel").append(wavelengths != null ? ",wavelength_nm" : "")
+                .append(expected != null ? ",expected_counts" : "").append(",counts")
                 .append(sigmas != null ? ",counts_sigma" : "").append('\n');
         for (int p = 0; p < counts.length; p++) {
             if (!Double.isFinite(counts[p]) || (wavelengths != null && !Double.isFinite(wavelengths[p]))
+                    || (expected != null && !Double.isFinite(expected[p]))
                     || (sigmas != null && !(sigmas[p] > 0 && Double.isFinite(sigmas[p])))) {
                 throw new IllegalArgumentException("pixel " + p + ": counts and wavelengths must be finite and "
                         + "sigmas finite and positive");
@@ -163,6 +183,9 @@ public final class SpectrumFiles {
             text.append(p);
             if (wavelengths != null) {
                 text.append(',').append(wavelengths[p]);
+            }
+            if (expected != null) {
+                text.append(',').append(expected[p]);
             }
             text.append(',').append(counts[p]);
             if (sigmas != null) {
@@ -280,7 +303,11 @@ public final class SpectrumFiles {
         double[] counts = new double[n];
         double[] sigmas = column[4] >= 0 ? new double[n] : null;
         double[] wavelengths = column[1] >= 0 ? new double[n] : null;
+        double[] expected = column[2] >= 0 ? new double[n] : null;
         for (int p = 0; p < n; p++) {
+            if (expected != null) {
+                expected[p] = rows.get(p)[2];
+            }
             counts[p] = rows.get(p)[3];
             if (sigmas != null) {
                 sigmas[p] = rows.get(p)[4];
@@ -289,7 +316,7 @@ public final class SpectrumFiles {
                 wavelengths[p] = rows.get(p)[1];
             }
         }
-        return new Spectrum(source, counts, sigmas, wavelengths, header);
+        return new Spectrum(source, counts, sigmas, wavelengths, expected, header);
     }
 
     static Spectrum json(String source, String text) {
@@ -311,7 +338,8 @@ public final class SpectrumFiles {
         double[] counts = array(source, root, "counts", true);
         double[] sigmas = array(source, root, "counts_sigma", false);
         double[] wavelengths = array(source, root, "wavelength_nm", false);
-        for (double[] other : new double[][] {sigmas, wavelengths}) {
+        double[] expected = array(source, root, "expected_counts", false);
+        for (double[] other : new double[][] {sigmas, wavelengths, expected}) {
             if (other != null && other.length != counts.length) {
                 throw new DataFileException(DataFileException.INVALID, source, List.of(),
                         "counts has " + counts.length + " values but another array has " + other.length);
@@ -325,7 +353,7 @@ public final class SpectrumFiles {
                 }
             }
         }
-        return new Spectrum(source, counts, sigmas, wavelengths, Map.of());
+        return new Spectrum(source, counts, sigmas, wavelengths, expected, Map.of());
     }
 
     private static double[] array(String source, JsonNode root, String name, boolean required) {

@@ -3,7 +3,12 @@ package org.ritzwerk.refdata;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
@@ -74,5 +79,31 @@ class SynthesisGuideTest {
         assertTrue(AlkaliLines.isElectricDipole(p32, ground));
         assertEquals(strongestIon, strongestNeon, 1e-12 * strongestIon, "lamp list scaled to the ions");
         assertEquals(8000, spectrum.counts().length);
+    }
+
+    @Test
+    void aSpectrumAndItsTruthAreWrittenSafelyAndReadBack(@TempDir Path folder) throws IOException {
+        DataContext data = DataContext.builtIn();
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(data.nucleus(Species.parse("H I")), Tier.DIRAC);
+        SyntheticSpectrum spectrum = Scene.builder(PixelGrid.linear(640, 670, 600))
+                .hydrogenLike(Species.parse("H I"), hydrogen, 1).temperature(8000).medium(Medium.air())
+                .instrument(Instrument.ofResolvingPower(5000)).noise(2.0, 3L).build().render(1);
+        Path spectrumFile = folder.resolve("scene.csv");
+        Path truthFile = folder.resolve("scene-lines.csv");
+
+        // --- README: write a synthetic spectrum and its truth (temporary file, renamed when complete), read back ---
+        Map<String, Object> description = Map.of("species", "H I", "temperature-k", 8000.0);
+        OutputFiles.writeText(spectrumFile,
+                out -> SyntheticSpectrumFiles.writeCsv(spectrum, Medium.air(), "linear", description, out));
+        OutputFiles.writeText(truthFile, out -> SpectrumLineFiles.writeCsv(spectrum, Medium.air(), out));
+        SpectrumFiles.Spectrum back = SpectrumFiles.read(spectrumFile);          // counts, expected counts, header
+        SpectrumLineFiles.SpectrumLines truth = SpectrumLineFiles.read(truthFile);  // the lines that went in
+        // --- end ---
+
+        assertTrue(Arrays.equals(spectrum.counts(), back.counts()), "bit for bit");
+        assertTrue(Arrays.equals(spectrum.expectedCounts(), back.expectedCounts()), "bit for bit");
+        assertEquals("8000.0", back.header().get("temperature-k"));
+        assertEquals(Medium.air(), truth.medium());
+        assertTrue(truth.labels().contains("H I Balmer alpha"), truth.labels().toString());
     }
 }

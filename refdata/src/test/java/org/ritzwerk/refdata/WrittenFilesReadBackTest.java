@@ -10,17 +10,26 @@ import static org.quicktheories.generators.SourceDSL.doubles;
 import static org.quicktheories.generators.SourceDSL.integers;
 import static org.quicktheories.generators.SourceDSL.longs;
 
+import java.io.IOException;
+import java.io.StringWriter;
+import java.io.UncheckedIOException;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
+import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
 
 /**
- * Every peaks and spectrum file Ritzwerk writes reads back with the same values, bit for bit
- * (properties over seeded random content: any finite doubles, gaps as "not given"); the line and
- * level formats have the same property in their own tests.
+ * Every peaks, spectrum, synthetic-spectrum (CSV and JSON) and truth file Ritzwerk writes reads
+ * back with the same values, bit for bit (properties over seeded random content: any finite
+ * doubles, gaps as "not given", labels and descriptions with commas, quotes, spaces and non-ASCII
+ * text); the line and level formats have the same property in their own tests.
  */
 class WrittenFilesReadBackTest {
 
@@ -72,8 +81,12 @@ class WrittenFilesReadBackTest {
                     double[] counts = new double[n];
                     double[] sigmas = withSigmas ? new double[n] : null;
                     double[] nm = withWavelengths ? new double[n] : null;
+                    double[] expected = r.nextBoolean() ? new double[n] : null;
                     for (int p = 0; p < n; p++) {
                         counts[p] = anyDouble(r, false);
+                        if (expected != null) {
+                            expected[p] = anyDouble(r, false);
+                        }
                         if (sigmas != null) {
                             sigmas[p] = anyDouble(r, true);
                         }
@@ -83,13 +96,197 @@ class WrittenFilesReadBackTest {
                     }
                     Map<String, String> header = new LinkedHashMap<>();
                     header.put("source", "invented exposure " + seed);
-                    SpectrumFiles.Spectrum spectrum = new SpectrumFiles.Spectrum("x.csv", counts, sigmas, nm, header);
+                    SpectrumFiles.Spectrum spectrum = new SpectrumFiles.Spectrum("x.csv", counts, sigmas, nm, expected,
+                            header);
                     SpectrumFiles.Spectrum back = SpectrumFiles.read(SpectrumFiles.writeCsv(spectrum), "x.csv");
                     assertArrayEquals(counts, back.counts());
+                    assertArrayEquals(expected, back.expectedCounts());
                     assertArrayEquals(sigmas, back.sigmas());
                     assertArrayEquals(nm, back.wavelengths());
                     assertEquals(header, back.header());
                 });
+    }
+
+    /** Text with the characters that trouble CSV and JSON: commas, quotes, spaces, '#', non-ASCII. */
+    private static String anyText(SplittableRandom r, int min, int max) {
+        String alphabet = "abcXYZ019 ,\"#:-+/()'\u00e9\u03b1\u2013\u00b5\\{}[]";
+        StringBuilder text = new StringBuilder();
+        int n = min + r.nextInt(max - min + 1);
+        for (int i = 0; i < n; i++) {
+            text.append(alphabet.charAt(r.nextInt(alphabet.length())));
+        }
+        return text.toString();
+    }
+
+    /** A random synthetic spectrum: increasing edges, any finite counts, lines with awkward labels. */
+    private static SyntheticSpectrum anySpectrum(SplittableRandom r, int pixels, int lineCount) {
+        double[] edges = new double[pixels + 1];
+        edges[0] = 100 + 1000 * r.nextDouble();
+        for (int i = 1; i <= pixels; i++) {
+            edges[i] = edges[i - 1] + (r.nextInt(5) == 0 ? Math.ulp(edges[i - 1]) * (1 + r.nextInt(4))
+                    : 1e-3 * (0.5 + r.nextDouble()));
+        }
+        double[] expected = new double[pixels];
+        double[] counts = new double[pixels];
+        for (int p = 0; p < pixels; p++) {
+            expected[p] = anyDouble(r, true);
+            counts[p] = r.nextBoolean() ? Math.floor(100 * r.nextDouble()) : anyDouble(r, false);
+        }
+        double[] position = new double[lineCount];
+        double[] photons = new double[lineCount];
+        double[] gaussian = new double[lineCount];
+        double[] lorentz = new double[lineCount];
+        double[] lineCounts = new double[lineCount];
+        String[] label = new String[lineCount];
+        for (int i = 0; i < lineCount; i++) {
+            position[i] = r.nextInt(6) == 0 ? anyDouble(r, true) : 90 + 1100 * r.nextDouble();
+            photons[i] = anyDouble(r, true);
+            gaussian[i] = r.nextInt(5) == 0 ? 0.0 : anyDouble(r, true);
+            lorentz[i] = r.nextInt(3) == 0 ? 0.0 : anyDouble(r, true);
+            lineCounts[i] = r.nextInt(5) == 0 ? 0.0 : anyDouble(r, true);
+            label[i] = anyText(r, 1, 40);
+        }
+        return SyntheticSpectrum.of(PixelGrid.of(edges), expected, counts,
+                Scene.Lines.of(position, photons, gaussian, lorentz, label), lineCounts);
+    }
+
+    /** A random scene description: text, doubles, longs and booleans under simple keys. */
+    private static Map<String, Object> anyDescription(SplittableRandom r) {
+        Map<String, Object> d = new LinkedHashMap<>();
+        int n = r.nextInt(8);
+        for (int k = 0; k < n; k++) {
+            String key = "key-" + k + "-" + anyText(r, 0, 3).replaceAll("[^a-z0-9]", "x");
+            switch (r.nextInt(4)) {
+                case 0 -> d.put(key, anyText(r, 0, 30).strip());
+                case 1 -> d.put(key, anyDouble(r, false));
+                case 2 -> d.put(key, r.nextLong());
+                default -> d.put(key, r.nextBoolean());
+            }
+        }
+        return d;
+    }
+
+    private static Medium anyMedium(SplittableRandom r) {
+        return r.nextBoolean() ? Medium.air() : Medium.vacuum();
+    }
+
+    private static String write(IoWrite write) {
+        StringWriter out = new StringWriter();
+        try {
+            write.to(out);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+        return out.toString();
+    }
+
+    private interface IoWrite {
+        void to(StringWriter out) throws IOException;
+    }
+
+    @Test
+    void syntheticSpectraAsCsvReadBackBitForBit() {
+        qt().withFixedSeed(20261204L).withExamples(120)
+                .forAll(integers().between(1, 150), longs().all())
+                .checkAssert((n, seed) -> {
+                    SplittableRandom r = new SplittableRandom(seed);
+                    SyntheticSpectrum spectrum = anySpectrum(r, n, r.nextInt(4));
+                    Medium medium = anyMedium(r);
+                    Map<String, Object> description = anyDescription(r);
+                    String text = write(out -> SyntheticSpectrumFiles.writeCsv(spectrum, medium, "linear", description,
+                            out));
+                    SpectrumFiles.Spectrum back = SpectrumFiles.read(text, "s.csv");
+                    double[] centres = new double[n];
+                    for (int p = 0; p < n; p++) {
+                        centres[p] = spectrum.grid().centre(p);
+                    }
+                    assertArrayEquals(centres, back.wavelengths());
+                    assertArrayEquals(spectrum.expectedCounts(), back.expectedCounts());
+                    assertArrayEquals(spectrum.counts(), back.counts());
+                    Map<String, String> header = new LinkedHashMap<>();
+                    header.put("axis", SyntheticSpectrumFiles.axis(spectrum.grid(), medium, "linear"));
+                    description.forEach((key, value) -> header.put(key, String.valueOf(value)));
+                    assertEquals(header, back.header());
+                    assertTrue(back.header().get("axis").endsWith(" pixels from " + spectrum.grid().edge(0) + " to "
+                            + spectrum.grid().edge(n) + ")"), back.header().get("axis"));
+                });
+    }
+
+    @Test
+    void syntheticSpectraAsJsonReadBackBitForBit() {
+        qt().withFixedSeed(20261205L).withExamples(120)
+                .forAll(integers().between(1, 150), integers().between(0, 12), longs().all())
+                .checkAssert((n, lineCount, seed) -> {
+                    SplittableRandom r = new SplittableRandom(seed);
+                    SyntheticSpectrum spectrum = anySpectrum(r, n, lineCount);
+                    Medium medium = anyMedium(r);
+                    Map<String, Object> description = anyDescription(r);
+                    List<String> notes = new ArrayList<>();
+                    for (int k = r.nextInt(3); k > 0; k--) {
+                        notes.add(anyText(r, 0, 50));
+                    }
+                    String grid = "dispersion " + anyText(r, 1, 10);
+                    String text = write(out -> SyntheticSpectrumFiles.writeJson(spectrum, medium, grid, description,
+                            notes, out));
+                    SyntheticSpectrumFiles.Document back = SyntheticSpectrumFiles.readJson(text, "s.json");
+                    assertEquals(medium, back.medium());
+                    assertEquals(grid, back.grid());
+                    assertEquals(description, back.scene());
+                    assertEquals(notes, back.notes());
+                    double[] edges = new double[n + 1];
+                    double[] centres = new double[n];
+                    for (int p = 0; p <= n; p++) {
+                        edges[p] = spectrum.grid().edge(p);
+                    }
+                    for (int p = 0; p < n; p++) {
+                        centres[p] = spectrum.grid().centre(p);
+                    }
+                    assertArrayEquals(edges, back.pixelEdges());
+                    assertArrayEquals(centres, back.wavelengths());
+                    assertArrayEquals(spectrum.expectedCounts(), back.expectedCounts());
+                    assertArrayEquals(spectrum.counts(), back.counts());
+                    assertSameLines(spectrum, back.lines());
+                    // The general spectrum reader takes the same document.
+                    assertArrayEquals(spectrum.counts(), SpectrumFiles.read(text, "s.json").counts());
+                });
+    }
+
+    @Test
+    void truthTablesReadBackBitForBit() {
+        qt().withFixedSeed(20261206L).withExamples(150)
+                .forAll(integers().between(0, 60), longs().all())
+                .checkAssert((lineCount, seed) -> {
+                    SplittableRandom r = new SplittableRandom(seed);
+                    SyntheticSpectrum spectrum = anySpectrum(r, 2, lineCount);
+                    Medium medium = anyMedium(r);
+                    String text = write(out -> SpectrumLineFiles.writeCsv(spectrum, medium, out));
+                    SpectrumLineFiles.SpectrumLines back = SpectrumLineFiles.read(text, "truth.csv");
+                    assertEquals(medium, back.medium());
+                    assertSameLines(spectrum, back);
+                });
+    }
+
+    private static void assertSameLines(SyntheticSpectrum spectrum, SpectrumLineFiles.SpectrumLines back) {
+        Scene.Lines lines = spectrum.lines();
+        int n = lines.size();
+        assertEquals(n, back.size());
+        double[] lineCounts = new double[n];
+        double[] nm = new double[n];
+        double[] doppler = new double[n];
+        double[] lorentz = new double[n];
+        List<String> labels = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            lineCounts[i] = spectrum.lineCounts(i);
+            nm[i] = lines.position(i);
+            doppler[i] = lines.gaussianFwhm(i);
+            lorentz[i] = lines.lorentzFwhm(i);
+            labels.add(lines.label(i));
+        }
+        assertArrayEquals(nm, back.wavelengths());
+        assertArrayEquals(lineCounts, back.counts());
+        assertArrayEquals(doppler, back.dopplerFwhm());
+        assertArrayEquals(lorentz, back.lorentzFwhm());
+        assertEquals(labels, back.labels());
     }
 
     @Test

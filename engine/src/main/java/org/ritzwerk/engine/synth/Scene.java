@@ -191,6 +191,33 @@ public final class Scene {
             this.label = label;
         }
 
+        /**
+         * Lines from their columns, for instance as read back from a file; the arrays are copied.
+         *
+         * @param position line centres in nm (axis medium)
+         * @param photons  photon rates before scaling
+         * @param gaussian Doppler FWHM in nm
+         * @param lorentz  Lorentzian FWHM in nm
+         * @param label    labels
+         * @return the lines
+         * @throws IllegalArgumentException when the columns differ in length or a label is null
+         */
+        public static Lines of(double[] position, double[] photons, double[] gaussian, double[] lorentz,
+                String[] label) {
+            int n = position.length;
+            if (photons.length != n || gaussian.length != n || lorentz.length != n || label.length != n) {
+                throw new IllegalArgumentException("line columns differ in length: " + n + " positions, "
+                        + photons.length + " photon rates, " + gaussian.length + " Doppler widths, " + lorentz.length
+                        + " Lorentzian widths, " + label.length + " labels");
+            }
+            for (int i = 0; i < n; i++) {
+                if (label[i] == null) {
+                    throw new IllegalArgumentException("line " + i + " has no label");
+                }
+            }
+            return new Lines(position.clone(), photons.clone(), gaussian.clone(), lorentz.clone(), label.clone());
+        }
+
         /** @return number of lines */
         public int size() {
             return position.length;

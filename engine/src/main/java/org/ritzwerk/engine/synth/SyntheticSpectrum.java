@@ -21,6 +21,30 @@ public final class SyntheticSpectrum {
         this.lineCounts = lineCounts;
     }
 
+    /**
+     * A spectrum from its parts, for instance as read back from a file; the arrays are copied.
+     *
+     * @param grid           the pixels
+     * @param expectedCounts expected counts per pixel, one per pixel
+     * @param counts         counts per pixel with noise, one per pixel
+     * @param lines          the lines that went in
+     * @param lineCounts     each line's expected counts summed over the pixels, one per line
+     * @return the spectrum
+     * @throws IllegalArgumentException when an array's length does not match the grid or the lines
+     */
+    public static SyntheticSpectrum of(PixelGrid grid, double[] expectedCounts, double[] counts, Scene.Lines lines,
+            double[] lineCounts) {
+        if (expectedCounts.length != grid.pixels() || counts.length != grid.pixels()) {
+            throw new IllegalArgumentException("a grid of " + grid.pixels() + " pixels needs as many expected counts ("
+                    + expectedCounts.length + " given) and counts (" + counts.length + " given)");
+        }
+        if (lineCounts.length != lines.size()) {
+            throw new IllegalArgumentException(lines.size() + " lines need as many line counts, got "
+                    + lineCounts.length);
+        }
+        return new SyntheticSpectrum(grid, expectedCounts.clone(), counts.clone(), lines, lineCounts.clone());
+    }
+
     /** @return the pixels */
     public PixelGrid grid() {
         return grid;
