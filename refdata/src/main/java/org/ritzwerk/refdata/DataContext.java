@@ -16,17 +16,17 @@ import java.util.concurrent.ConcurrentMap;
 import java.util.stream.Collectors;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.Isotope;
 import org.ritzwerk.data.IsotopeTable;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.CorePolarizability;
-import org.ritzwerk.engine.rydberg.MeasuredLevel;
-import org.ritzwerk.engine.rydberg.ModelPotential;
 import org.ritzwerk.quantity.Unit;
 
 /**

@@ -14,11 +14,11 @@ import java.util.Objects;
 import java.util.Set;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
-import org.ritzwerk.engine.rydberg.CorePolarizability;
 
 /**
  * Ritzwerk's quantum-defect file format ({@code ritzwerk-quantum-defects}, version 1), CSV:

@@ -2,10 +2,10 @@ package org.ritzwerk.refdata;
 
 import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStreamReader;
-import java.nio.charset.StandardCharsets;
 import java.io.InputStream;
+import java.io.InputStreamReader;
 import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -17,13 +17,13 @@ import java.util.regex.Pattern;
 import java.util.stream.Collectors;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.MeasuredLevel;
-import org.ritzwerk.engine.rydberg.ModelPotential;
-import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.quantity.Unit;
 
 /**

@@ -10,15 +10,15 @@ import java.util.List;
 import java.util.stream.Collectors;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
-import org.ritzwerk.engine.rydberg.ModelPotential;
 import org.ritzwerk.engine.rydberg.RydbergException;
-import org.ritzwerk.engine.rydberg.State;
 
 /** The built-in Rydberg data: what the provider offers, how the files read, and how broken files are refused. */
 class RydbergDataTest {

@@ -8,7 +8,11 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.CorePolarizability;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.angular.WignerSymbols;
 
