@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.InputStream;
 import java.util.List;
+import java.util.Optional;
 import java.util.stream.Collectors;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
@@ -117,6 +118,24 @@ class RydbergDataTest {
         assertEquals(DataFileException.INVALID, e.code());
         assertEquals(List.of("qd.missing-key"), e.problems().stream().map(DataProblem::code).collect(Collectors.toList()));
         assertTrue(e.getMessage().contains("limit-per-cm"), e.getMessage());
+    }
+
+    @Test
+    void aLevelsIdThatIsNotAnIdIsRefusedWithItsLine() {
+        DataFileException e = assertThrows(DataFileException.class, () -> read("quantum-defects-bad-levels-id.csv"));
+        assertEquals(List.of("qd.bad-levels:11"), e.problems().stream().map(p -> p.code() + ":" + p.line())
+                .collect(Collectors.toList()));
+        assertTrue(e.getMessage().contains("'Levels RB 87'"), e.getMessage());
+    }
+
+    @Test
+    void theBuiltInSetsCarryTheirCorePolarizabilitiesAndLevelsIds() {
+        for (Species species : RydbergData.builtIn().species()) {
+            QuantumDefects set = RydbergData.builtIn().quantumDefects(species).defects();
+            assertEquals(Optional.of(RydbergData.builtIn().levels(species).info().id()), set.levelsId(), species.notation());
+            assertTrue(set.corePolarizability().isPresent(), species.notation());
+            assertEquals(set.corePolarizability(), RydbergData.builtIn().atom(species).corePolarizability());
+        }
     }
 
     @Test

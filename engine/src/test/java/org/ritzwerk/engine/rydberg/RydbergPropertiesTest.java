@@ -245,18 +245,4 @@ class RydbergPropertiesTest {
         assertEquals(ca, model.radialDipoleBohr(State.of(40, 0, 1), State.of(40, 1, 3)), 1e-4 * Math.abs(ca));
         assertEquals(1.0, model.expectationBohr(State.of(40, 0, 1), 0), 1e-12);
     }
-
-    @Test
-    void stateLabelsReadBack() {
-        qt().withFixedSeed(SEED).forAll(integers().between(1, 500), integers().between(0, 16), integers().between(0, 1))
-                .checkAssert((n, lSeed, j) -> {
-                    int l = lSeed % n;
-                    State s = State.of(n, l, l == 0 ? 1 : 2 * l - 1 + 2 * j);
-                    assertEquals(s, State.parse(s.label()));
-                });
-        assertEquals("43d 2D5/2", State.parse("43d5/2").notation());
-        assertThrows(IllegalArgumentException.class, () -> State.parse("43d7/2"));
-        assertThrows(IllegalArgumentException.class, () -> State.parse("5x1/2"));
-        assertThrows(IllegalArgumentException.class, () -> State.of(3, 3, 7));
-    }
 }
