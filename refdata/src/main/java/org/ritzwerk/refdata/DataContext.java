@@ -253,7 +253,7 @@ public final class DataContext {
         List<MeasuredLevel> measured = defects.levelsId().map(levelsId -> measuredLevels(id, levelsId, species))
                 .orElse(List.of());
         double rydberg = QuantumDefectFiles.rydbergPerCm(isotope(species).atomicMass());
-        return AlkaliAtom.of(defects.withRydbergPerCm(rydberg), measured, defects.corePolarizability().orElse(null));
+        return AlkaliAtom.of(defects.withRydbergPerCm(rydberg), measured);
     }
 
     private List<MeasuredLevel> measuredLevels(String setId, String levelsId, Species species) {

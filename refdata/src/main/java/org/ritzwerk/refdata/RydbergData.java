@@ -22,7 +22,6 @@ import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.MeasuredLevel;
 import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.Provenance;
-import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.quantity.Unit;
 
@@ -278,8 +277,7 @@ public final class RydbergData {
      */
     public AlkaliAtom atom(Species species) {
         Entry entry = entry(species);
-        QuantumDefects defects = entry.content().defects();
-        return AlkaliAtom.of(defects, measuredLevels(entry.levels()), defects.corePolarizability().orElse(null));
+        return AlkaliAtom.of(entry.content().defects(), measuredLevels(entry.levels()));
     }
 
     /**

@@ -7,10 +7,12 @@ import static org.quicktheories.QuickTheory.qt;
 import static org.quicktheories.generators.SourceDSL.integers;
 
 import java.util.List;
+import java.util.Optional;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.ModelPotential;
+import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.hydrogenic.RadialIntegrals;
 
 /**
@@ -229,6 +231,23 @@ class RydbergPropertiesTest {
         assertThrows(IllegalArgumentException.class, () -> rubidium.ladder(State.of(5, 1, 3), State.of(5, 0, 1),
                 State.of(40, 0, 1)));
         assertThrows(IllegalArgumentException.class, () -> rubidium.blackbodyRate(State.of(30, 0, 1), Double.NaN));
+    }
+
+    @Test
+    void theCoreASetCarriesIsUsedUnlessOneIsGiven() {
+        QuantumDefects bare = rubidium.quantumDefects();
+        CorePolarizability core = rubidium.corePolarizability().orElseThrow();
+        State g = State.of(30, 4, 9);
+        AlkaliAtom fromSet = AlkaliAtom.of(bare.withCorePolarizability(core), rubidium.measuredLevels());
+        assertEquals(Optional.of(core), fromSet.corePolarizability());
+        assertEquals(LevelOrigin.CORE_POLARIZATION, fromSet.level(g).origin());
+        assertEquals(rubidium.energyPerCm(g), fromSet.energyPerCm(g), 0.0);
+        AlkaliAtom without = AlkaliAtom.of(bare, rubidium.measuredLevels());
+        assertEquals(Optional.empty(), without.corePolarizability());
+        assertEquals(LevelOrigin.HYDROGENIC, without.level(g).origin());
+        // an explicit argument wins over what the set carries
+        assertEquals(Optional.empty(), AlkaliAtom.of(bare.withCorePolarizability(core), List.of(), null)
+                .corePolarizability());
     }
 
     @Test
