@@ -2,6 +2,7 @@ package org.ritzwerk.data;
 
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 import org.ritzwerk.atom.Species;
 
 /**
@@ -9,16 +10,28 @@ import org.ritzwerk.atom.Species;
  * {@code delta(n) = d0 + d2 / (n - d0)^2 + d4 / (n - d0)^4 + ...}, per series l j, with the
  * ionization limit and the species' Rydberg constant they belong to (T. F. Gallagher, Rydberg
  * Atoms, Cambridge University Press (1994); common practice). The level energy above the ground state is then
- * {@code E = E_limit - R_M / (n - delta(n))^2}. Immutable and thread-safe.
+ * {@code E = E_limit - R_M / (n - delta(n))^2}.
  *
- * @param info            what the set is (kind {@link DataKind#QUANTUM_DEFECTS})
- * @param species         the atom or ion
- * @param limitPerCm      ionization limit above the ground state, cm^-1; finite, positive
- * @param rydbergPerCm    the mass-corrected Rydberg constant R_M of the species, cm^-1; positive
- * @param series          the series, one per l and j
+ * <p>A set may also carry what completes the atom beyond its series, so that any provider (a
+ * third party's included) can supply a whole alkali atom: the static polarizabilities of the ionic
+ * core (for the series of higher l and the Coulomb approximation's inner cut-off) and the id of the
+ * {@link DataKind#LEVELS} set of measured low levels (energies in cm^-1, labels like
+ * {@code 5p 2P3/2}) that the model uses below the series' validity. A data context resolves that
+ * id in its own registry. Immutable and thread-safe.
+ *
+ * @param info               what the set is (kind {@link DataKind#QUANTUM_DEFECTS})
+ * @param species            the atom or ion
+ * @param limitPerCm         ionization limit above the ground state, cm^-1; finite, positive
+ * @param rydbergPerCm       the mass-corrected Rydberg constant R_M of the species, cm^-1; positive
+ * @param series             the series, one per l and j
+ * @param corePolarizability the core's dipole and quadrupole polarizabilities (atomic units), if
+ *                           the set gives them
+ * @param levelsId           the id of the set of measured low levels that goes with this one, if
+ *                           any; a valid data set id ({@link DataSetInfo#isValidId(String)})
  */
 public record QuantumDefects(DataSetInfo info, Species species, double limitPerCm, double rydbergPerCm,
-        List<Series> series) implements DataSet {
+        List<Series> series, Optional<CorePolarizability> corePolarizability, Optional<String> levelsId)
+        implements DataSet {
 
     /**
      * One series' parameters.
@@ -58,6 +71,52 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
                     + limitPerCm + " and " + rydbergPerCm);
         }
         series = List.copyOf(series);
+        Objects.requireNonNull(corePolarizability, "corePolarizability");
+        Objects.requireNonNull(levelsId, "levelsId");
+        if (levelsId.isPresent() && !DataSetInfo.isValidId(levelsId.get())) {
+            throw new IllegalArgumentException("levels id must be a data set id (1 to 80 lower-case letters, digits, "
+                    + "dots and dashes), got '" + levelsId.get() + "'");
+        }
+    }
+
+    /**
+     * A set of series only, without core polarizabilities or measured levels.
+     *
+     * @param info         what the set is (kind {@link DataKind#QUANTUM_DEFECTS})
+     * @param species      the atom or ion
+     * @param limitPerCm   ionization limit above the ground state, cm^-1; finite, positive
+     * @param rydbergPerCm the mass-corrected Rydberg constant R_M of the species, cm^-1; positive
+     * @param series       the series, one per l and j
+     */
+    public QuantumDefects(DataSetInfo info, Species species, double limitPerCm, double rydbergPerCm,
+            List<Series> series) {
+        this(info, species, limitPerCm, rydbergPerCm, series, Optional.empty(), Optional.empty());
+    }
+
+    /**
+     * @param rydberg the mass-corrected Rydberg constant R_M, cm^-1; finite, positive
+     * @return this set with R_M replaced (e.g. by one computed from another table's atomic mass)
+     */
+    public QuantumDefects withRydbergPerCm(double rydberg) {
+        return new QuantumDefects(info, species, limitPerCm, rydberg, series, corePolarizability, levelsId);
+    }
+
+    /**
+     * @param core the core's polarizabilities
+     * @return this set with them
+     */
+    public QuantumDefects withCorePolarizability(CorePolarizability core) {
+        return new QuantumDefects(info, species, limitPerCm, rydbergPerCm, series, Optional.of(core), levelsId);
+    }
+
+    /**
+     * @param id the id of the set of measured low levels that goes with this one
+     * @return this set naming it
+     * @throws IllegalArgumentException when {@code id} is not a valid data set id
+     */
+    public QuantumDefects withLevelsId(String id) {
+        return new QuantumDefects(info, species, limitPerCm, rydbergPerCm, series, corePolarizability,
+                Optional.of(id));
     }
 
     @Override

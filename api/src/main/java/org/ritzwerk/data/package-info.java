@@ -3,7 +3,13 @@
  * found: {@link org.ritzwerk.data.ReferenceDataProvider}, discovered with
  * {@link java.util.ServiceLoader}. Every data set carries its provenance. Positions and energies
  * are kept in the unit their source states them in (so nothing is rounded on the way through);
- * typed accessors convert. Everything here is immutable and thread-safe, except that a
+ * typed accessors convert. The parameter records that describe an alkali-like atom's data state
+ * their units in their names or Javadoc: quantum-defect sets ({@link org.ritzwerk.data.QuantumDefects},
+ * limit and Rydberg constant in cm^-1), measured levels ({@link org.ritzwerk.data.MeasuredLevel},
+ * cm^-1 above the ground level), core polarizabilities
+ * ({@link org.ritzwerk.data.CorePolarizability}, atomic units a0^3 and a0^5) and model-potential
+ * parameters ({@link org.ritzwerk.data.ModelPotential}, atomic units: a0, a0^-1, a0^-2, a0^3);
+ * the engine computes with them. Everything here is immutable and thread-safe, except that a
  * provider's own thread-safety is the provider's promise.
  */
 package org.ritzwerk.data;

@@ -15,12 +15,12 @@ import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.annotations.Warmup;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.CorePolarizability;
 
 /**
  * One radial dipole integral between two Rb Rydberg states near n = 100 ({@code ns1/2} and
@@ -48,8 +48,8 @@ public class RydbergDipoleBenchmark {
     static final double UNIFORM_STEP = 0.5;
 
     AlkaliAtom rubidium;
-    org.ritzwerk.engine.rydberg.State s;
-    org.ritzwerk.engine.rydberg.State p;
+    org.ritzwerk.atom.State s;
+    org.ritzwerk.atom.State p;
     double sStar;
     double pStar;
     double coreRadius;
@@ -67,8 +67,8 @@ public class RydbergDipoleBenchmark {
                 rb87, 33690.804799, rydberg, List.of(new QuantumDefects.Series(0, 1, List.of(3.1311807, 0.1787), 10),
                         new QuantumDefects.Series(1, 3, List.of(2.6416737, 0.2950), 15)));
         rubidium = AlkaliAtom.of(defects, List.of(), new CorePolarizability(9.116, 38.4, "benchmark"));
-        s = org.ritzwerk.engine.rydberg.State.of(n, 0, 1);
-        p = org.ritzwerk.engine.rydberg.State.of(n, 1, 3);
+        s = org.ritzwerk.atom.State.of(n, 0, 1);
+        p = org.ritzwerk.atom.State.of(n, 1, 3);
         sStar = rubidium.level(s).effectiveN();
         pStar = rubidium.level(p).effectiveN();
         lengthScale = rInf / rydberg;

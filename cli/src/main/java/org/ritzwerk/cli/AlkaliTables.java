@@ -1,11 +1,11 @@
 package org.ritzwerk.cli;
 
 import java.util.List;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
-import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
 

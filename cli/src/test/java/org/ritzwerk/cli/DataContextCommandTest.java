@@ -25,7 +25,10 @@ import javax.tools.ToolProvider;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.CorePolarizability;
+import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.data.ReferenceDataProvider;
 import org.ritzwerk.refdata.DataContext;
 import org.ritzwerk.refdata.NuclearData;
@@ -36,7 +39,7 @@ import tools.jackson.databind.json.JsonMapper;
  * The command line's data comes from its data context: a user's file given with {@code --data}
  * and a third-party provider jar on the class path each replace the nuclear data, a quantum-defect
  * set and a lamp set, and so change what the commands print. Every replacement value is invented
- * for the test.
+ * for the test, except where a jar supplies the built-in values to show it gives the same output.
  */
 class DataContextCommandTest {
 
@@ -163,6 +166,108 @@ class DataContextCommandTest {
         double rydberg = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I")).rydbergPerCm();
         assertEquals(33690.8 - rydberg / (47.0 * 47.0), after, 1e-6);
         assertNotEquals(before, after);
+    }
+
+    /**
+     * A third-party jar, compiled against the api only, supplies a whole Rb-87 atom: a quantum-defect
+     * set that carries its core polarizabilities and names the jar's own measured-levels set. With
+     * the built-in values under other ids, {@code levels} prints exactly what the built-in data gives
+     * (measured, fitted and core-polarization levels, and lifetimes).
+     */
+    @Test
+    void aThirdPartyQuantumDefectSetWithCoreAndLevelsGivesTheBuiltInAtom(@TempDir Path dir) throws Exception {
+        DataContext builtIn = DataContext.builtIn();
+        QuantumDefects defects = (QuantumDefects) builtIn.registry().load("quantum-defects-rb-87");
+        LevelList levels = (LevelList) builtIn.registry().load(defects.levelsId().orElseThrow());
+        String source = wholeAlkaliSource("com.example.rydberg.WholeRubidium", defects, levels, "example-qd-rb-87",
+                "example-levels-rb-87");
+        String[] args = {"levels", "--species", "Rb-87 I", "--n-max", "20", "--l-max", "4", "--lifetimes",
+            "--format", "csv"};
+        CliTest.Run before = CliTest.run(args);
+        assertEquals(0, before.code(), before.err());
+        assertTrue(before.out().contains("core-polarization") && before.out().contains("measured"), before.out());
+        CliTest.Run after = withProvider(dir, "com.example.rydberg.WholeRubidium", source, () -> {
+            CliTest.Run listed = CliTest.run("data");
+            assertTrue(listed.out().lines().anyMatch(l -> l.startsWith("example-qd-rb-87") && l.contains("third-party")),
+                    listed.out());
+            assertTrue(listed.out().lines().anyMatch(l -> l.startsWith("example-levels-rb-87")
+                    && l.contains("third-party")), listed.out());
+            return CliTest.run(args);
+        });
+        assertEquals(0, after.code(), after.err());
+        assertEquals(before.out(), after.out());
+        assertEquals(before.err(), after.err());
+    }
+
+    /**
+     * @return the source of a provider that supplies {@code defects} (with its core polarizabilities,
+     *         naming {@code levelsId}) and {@code levels} under the ids given, against the api only;
+     *         the numbers are written as literals that read back to the same doubles
+     */
+    private static String wholeAlkaliSource(String className, QuantumDefects defects, LevelList levels, String qdId,
+            String levelsId) {
+        int dot = className.lastIndexOf('.');
+        StringBuilder src = new StringBuilder();
+        src.append("package ").append(className, 0, dot).append(";\n")
+                .append("import java.util.List;\nimport java.util.Optional;\nimport org.ritzwerk.atom.Species;\n")
+                .append("import org.ritzwerk.data.*;\nimport org.ritzwerk.quantity.Unit;\n")
+                .append("public final class ").append(className.substring(dot + 1))
+                .append(" implements ReferenceDataProvider {\n")
+                .append("  private static final Species ATOM = Species.parse(").append(quote(defects.species().notation()))
+                .append(");\n")
+                .append("  public String id() { return \"example-whole-alkali\"; }\n")
+                .append("  private static DataSetInfo info(String id, DataKind kind) {\n")
+                .append("    return new DataSetInfo(id, kind, \"as the built-in set\", \"1\", ")
+                .append("Provenance.published(").append(quote(defects.info().provenance().detail()))
+                .append("), List.of(ATOM));\n  }\n")
+                .append("  public List<DataSetInfo> dataSets() {\n    return List.of(info(").append(quote(qdId))
+                .append(", DataKind.QUANTUM_DEFECTS), info(").append(quote(levelsId)).append(", DataKind.LEVELS));\n  }\n")
+                .append("  public DataSet load(String id) {\n")
+                .append("    if (id.equals(").append(quote(levelsId)).append(")) {\n")
+                .append("      return LevelList.builder(info(id, DataKind.LEVELS), Unit.PER_CENTIMETRE, \"\")");
+        for (int i = 0; i < levels.size(); i++) {
+            src.append("\n          .add(ATOM, ").append(quote(levels.label(i))).append(", ")
+                    .append(literal(levels.energy(i))).append(", ")
+                    .append(literal(levels.uncertainty(i).orElse(Double.NaN))).append(", ").append(levels.twoJ(i))
+                    .append(", null)");
+        }
+        src.append("\n          .build();\n    }\n")
+                .append("    return new QuantumDefects(info(id, DataKind.QUANTUM_DEFECTS), ATOM, ")
+                .append(literal(defects.limitPerCm())).append(", ").append(literal(defects.rydbergPerCm()))
+                .append(", List.of(");
+        for (int i = 0; i < defects.series().size(); i++) {
+            QuantumDefects.Series series = defects.series().get(i);
+            src.append(i == 0 ? "" : ",").append("\n        new QuantumDefects.Series(").append(series.l()).append(", ")
+                    .append(series.twoJ()).append(", List.of(");
+            for (int k = 0; k < series.coefficients().size(); k++) {
+                src.append(k == 0 ? "" : ", ").append(literal(series.coefficients().get(k)));
+            }
+            src.append("), ").append(series.validFromN()).append(")");
+        }
+        CorePolarizability core = defects.corePolarizability().orElseThrow();
+        src.append("),\n        Optional.of(new CorePolarizability(").append(literal(core.dipoleAu())).append(", ")
+                .append(literal(core.quadrupoleAu())).append(", ").append(quote(core.source())).append(")),\n")
+                .append("        Optional.of(").append(quote(levelsId)).append("));\n  }\n}\n");
+        return src.toString();
+    }
+
+    private static String literal(double value) {
+        return Double.isNaN(value) ? "Double.NaN" : Double.toString(value);
+    }
+
+    /** @return a Java string literal of {@code text}, ASCII only (so the platform encoding does not matter) */
+    private static String quote(String text) {
+        StringBuilder out = new StringBuilder("\"");
+        for (char c : text.toCharArray()) {
+            if (c == '"' || c == '\\') {
+                out.append('\\').append(c);
+            } else if (c < 0x20 || c > 0x7e) {
+                out.append(String.format("\\u%04x", (int) c));
+            } else {
+                out.append(c);
+            }
+        }
+        return out.append('"').toString();
     }
 
     /** @return the energy of Rb-87 50s in cm-1 as {@code levels} prints it */

@@ -11,8 +11,8 @@ import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.refdata.RydbergData;
 
 /**

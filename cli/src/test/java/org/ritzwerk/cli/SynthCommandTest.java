@@ -268,9 +268,9 @@ class SynthCommandTest {
         }
         org.ritzwerk.engine.rydberg.AlkaliAtom rb = org.ritzwerk.refdata.RydbergData.builtIn()
                 .atom(org.ritzwerk.atom.Species.parse("Rb-87 I"));
-        org.ritzwerk.engine.rydberg.State g = org.ritzwerk.engine.rydberg.State.parse("5s1/2");
-        org.ritzwerk.engine.rydberg.State p1 = org.ritzwerk.engine.rydberg.State.parse("5p1/2");
-        org.ritzwerk.engine.rydberg.State p3 = org.ritzwerk.engine.rydberg.State.parse("5p3/2");
+        org.ritzwerk.atom.State g = org.ritzwerk.atom.State.parse("5s1/2");
+        org.ritzwerk.atom.State p1 = org.ritzwerk.atom.State.parse("5p1/2");
+        org.ritzwerk.atom.State p3 = org.ritzwerk.atom.State.parse("5p3/2");
         double kT = 1.380649e-23 * 2000;
         double hcPerCm = 6.62607015e-34 * 299_792_458.0 * 100;
         double expected = 4 * rb.einsteinA(p3, g) / (2 * rb.einsteinA(p1, g))

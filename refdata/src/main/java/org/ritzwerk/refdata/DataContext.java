@@ -22,11 +22,10 @@ import org.ritzwerk.data.Isotope;
 import org.ritzwerk.data.IsotopeTable;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.CorePolarizability;
-import org.ritzwerk.engine.rydberg.MeasuredLevel;
-import org.ritzwerk.engine.rydberg.ModelPotential;
 import org.ritzwerk.quantity.Unit;
 
 /**
@@ -40,8 +39,10 @@ import org.ritzwerk.quantity.Unit;
  * isotope file names none, so the built-in table of most abundant isotopes stays in force).</li>
  * <li><b>Alkali atoms</b> ({@link #alkaliSpecies()}, {@link #alkaliAtom(Species)}): the
  * {@link DataKind#QUANTUM_DEFECTS} set of highest precedence for the isotope, with the core
- * polarizabilities and the measured levels set its file names (a third party's bare
- * {@link QuantumDefects} record has neither), and R_M computed from this context's nuclear data
+ * polarizabilities its {@link QuantumDefects} record carries and the measured levels of the
+ * {@link DataKind#LEVELS} set it names (looked up in this context, so whichever provider supplies
+ * the record, a user's file, a third party's jar or the built-in data, supplies a whole atom),
+ * and R_M computed from this context's nuclear data
  * ({@link QuantumDefectFiles#rydbergPerCm(double)}). The atoms use the Coulomb approximation;
  * {@link #modelPotential(Species)} gives the built-in core potential for
  * {@link AlkaliAtom#withModelPotential}.</li>
@@ -249,14 +250,10 @@ public final class DataContext {
                     + "' is not a quantum-defect record");
         }
         QuantumDefects defects = (QuantumDefects) set;
-        Optional<QuantumDefectFiles.Content> content = registry.quantumDefectContent(listing);
-        CorePolarizability core = content.map(QuantumDefectFiles.Content::core).orElse(null);
-        String levelsId = content.map(QuantumDefectFiles.Content::levelsId).orElse("");
-        List<MeasuredLevel> measured = levelsId.isEmpty() ? List.of() : measuredLevels(id, levelsId, species);
+        List<MeasuredLevel> measured = defects.levelsId().map(levelsId -> measuredLevels(id, levelsId, species))
+                .orElse(List.of());
         double rydberg = QuantumDefectFiles.rydbergPerCm(isotope(species).atomicMass());
-        QuantumDefects withMass = new QuantumDefects(defects.info(), defects.species(), defects.limitPerCm(), rydberg,
-                defects.series());
-        return AlkaliAtom.of(withMass, measured, core);
+        return AlkaliAtom.of(defects.withRydbergPerCm(rydberg), measured);
     }
 
     private List<MeasuredLevel> measuredLevels(String setId, String levelsId, Species species) {

@@ -145,14 +145,6 @@ public final class DataRegistry {
         return details(listing).flatMap(d -> d.nuclearData(listing.info().id()));
     }
 
-    /**
-     * @param listing a listing of this registry
-     * @return the quantum-defect file behind it, when its provider is one of Ritzwerk's own
-     */
-    Optional<QuantumDefectFiles.Content> quantumDefectContent(Listing listing) {
-        return details(listing).flatMap(d -> d.quantumDefects(listing.info().id()));
-    }
-
     private Optional<SetDetails> details(Listing listing) {
         return providers.stream().filter(r -> r.provider().id().equals(listing.providerId())
                 && r.origin() == listing.origin() && r.provider() instanceof SetDetails)
@@ -296,11 +288,6 @@ public final class DataRegistry {
         @Override
         public Optional<NuclearData> nuclearData(String dataSetId) {
             return file.nuclear();
-        }
-
-        @Override
-        public Optional<QuantumDefectFiles.Content> quantumDefects(String dataSetId) {
-            return file.quantumDefects();
         }
     }
 }

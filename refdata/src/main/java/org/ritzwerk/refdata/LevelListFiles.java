@@ -13,7 +13,6 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.Provenance;
-import org.ritzwerk.engine.hydrogenic.Notation;
 import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
 import tools.jackson.databind.node.ObjectNode;
@@ -187,8 +186,12 @@ public final class LevelListFiles {
         return TabularFiles.writeJson(SPEC, headerOf(table), rows);
     }
 
+    /** @return j as the file writes it: {@code 3/2} for a half-integer, {@code 2} for an integer, empty for none */
     private static String j(int twoJ) {
-        return twoJ < 0 ? "" : Notation.half(twoJ);
+        if (twoJ < 0) {
+            return "";
+        }
+        return (twoJ & 1) == 0 ? Integer.toString(twoJ / 2) : twoJ + "/2";
     }
 
     private static Map<String, String> headerOf(LevelList table) {

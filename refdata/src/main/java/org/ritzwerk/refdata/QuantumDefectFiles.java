@@ -11,14 +11,15 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Optional;
 import java.util.Set;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
-import org.ritzwerk.engine.rydberg.CorePolarizability;
 
 /**
  * Ritzwerk's quantum-defect file format ({@code ritzwerk-quantum-defects}, version 1), CSV:
@@ -66,18 +67,17 @@ public final class QuantumDefectFiles {
             "core-quadrupole-polarizability-au", "core-source", "core-check", "levels", "note");
 
     /**
-     * What a file holds beyond the {@link QuantumDefects} record.
+     * What a file holds: the quantum-defect set, whose record carries the core polarizabilities
+     * and the id of the measured low levels when the file names them, and how the ionisation
+     * limit was obtained.
      *
-     * @param defects  the series, limit and R_M
-     * @param core     the core polarizabilities, or null when the file gives none
-     * @param levelsId the id of the measured low levels that go with the set, or empty
+     * @param defects         the series, limit, R_M, core polarizabilities and levels id
      * @param limitProvenance how the ionisation limit was obtained
      */
-    public record Content(QuantumDefects defects, CorePolarizability core, String levelsId, Provenance limitProvenance) {
+    public record Content(QuantumDefects defects, Provenance limitProvenance) {
         /** Validates the components. */
         public Content {
             Objects.requireNonNull(defects, "defects");
-            Objects.requireNonNull(levelsId, "levelsId");
             Objects.requireNonNull(limitProvenance, "limitProvenance");
         }
     }
@@ -277,6 +277,11 @@ public final class QuantumDefectFiles {
                         "qd.bad-core", e.getMessage(), ""));
             }
         }
+        String levels = header.getOrDefault("levels", "");
+        if (!levels.isEmpty() && !DataSetInfo.isValidId(levels)) {
+            problems.add(new DataProblem(source, headerLine.get("levels"), 0, "qd.bad-levels", "levels must be the id "
+                    + "of a level set (lower-case letters, digits, dots and dashes), got '" + levels + "'", levels));
+        }
         if (!problems.isEmpty()) {
             return null;
         }
@@ -291,9 +296,9 @@ public final class QuantumDefectFiles {
         try {
             DataSetInfo info = new DataSetInfo(header.get("id"), DataKind.QUANTUM_DEFECTS, header.get("title"),
                     header.get("version"), new Provenance(provenanceKind, header.get("source")), List.of(species));
-            QuantumDefects defects = new QuantumDefects(info, species, limit, rydberg, series);
-            return new Content(defects, core, header.getOrDefault("levels", ""),
-                    new Provenance(limitKind, header.get("limit-source")));
+            QuantumDefects defects = new QuantumDefects(info, species, limit, rydberg, series,
+                    Optional.ofNullable(core), levels.isEmpty() ? Optional.empty() : Optional.of(levels));
+            return new Content(defects, new Provenance(limitKind, header.get("limit-source")));
         } catch (IllegalArgumentException e) {
             problems.add(new DataProblem(source, headerLine.getOrDefault("id", 1), 0, "qd.bad-set", e.getMessage(), ""));
             return null;

@@ -2,28 +2,27 @@ package org.ritzwerk.refdata;
 
 import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStreamReader;
-import java.nio.charset.StandardCharsets;
 import java.io.InputStream;
+import java.io.InputStreamReader;
 import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.Optional;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Collectors;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.MeasuredLevel;
-import org.ritzwerk.engine.rydberg.ModelPotential;
-import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.quantity.Unit;
 
 /**
@@ -97,7 +96,9 @@ public final class RydbergData {
             } catch (IOException e) {
                 throw new UncheckedIOException(qd + ": " + e.getMessage(), e);
             }
-            String lv = "rydberg/" + content.levelsId() + ".csv";
+            String levelsId = content.defects().levelsId().orElseThrow(() -> new ReferenceDataException(
+                    ReferenceDataException.BAD_BUILT_IN, qd + ": names no levels set"));
+            String lv = "rydberg/" + levelsId + ".csv";
             LevelList levels;
             try (InputStream in = open(lv)) {
                 levels = LevelListFiles.read(in, lv);
@@ -235,16 +236,6 @@ public final class RydbergData {
         return sets;
     }
 
-    /**
-     * @param id a data set id
-     * @return the whole quantum-defect file behind set {@code id} (core polarizabilities, the id of
-     *         its levels), if it is one of these sets
-     */
-    Optional<QuantumDefectFiles.Content> content(String id) {
-        return entries.values().stream().map(Entry::content).filter(c -> c.defects().info().id().equals(id))
-                .findFirst();
-    }
-
     private Entry entry(Species species) {
         Species key = species;
         if (species.massNumber() == 0) {
@@ -286,7 +277,7 @@ public final class RydbergData {
      */
     public AlkaliAtom atom(Species species) {
         Entry entry = entry(species);
-        return AlkaliAtom.of(entry.content().defects(), measuredLevels(entry.levels()), entry.content().core());
+        return AlkaliAtom.of(entry.content().defects(), measuredLevels(entry.levels()));
     }
 
     /**

@@ -1,7 +1,6 @@
 package org.ritzwerk.refdata;
 
 import java.util.List;
-import java.util.Optional;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Origin;
@@ -10,9 +9,10 @@ import org.ritzwerk.data.ReferenceDataProvider;
 /**
  * The built-in Rydberg data ({@link RydbergData}) as a provider: quantum-defect sets
  * {@code quantum-defects-<atom>} and measured low levels {@code levels-<atom>} for Li-7, Na-23,
- * K-39, Rb-85, Rb-87 and Cs-133. Thread-safe; the files are read on first use.
+ * K-39, Rb-85, Rb-87 and Cs-133. Each quantum-defect record carries its core polarizabilities and
+ * the id of its levels set, as a third party's may. Thread-safe; the files are read on first use.
  */
-public final class RydbergProvider implements ReferenceDataProvider, SetDetails {
+public final class RydbergProvider implements ReferenceDataProvider {
 
     @Override
     public String id() {
@@ -37,10 +37,5 @@ public final class RydbergProvider implements ReferenceDataProvider, SetDetails 
                     + "'; known: " + String.join(", ", RydbergData.builtIn().byId().keySet()));
         }
         return (DataSet) set;
-    }
-
-    @Override
-    public Optional<QuantumDefectFiles.Content> quantumDefects(String dataSetId) {
-        return RydbergData.builtIn().content(dataSetId);
     }
 }

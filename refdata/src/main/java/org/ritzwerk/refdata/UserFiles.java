@@ -22,10 +22,10 @@ public final class UserFiles {
     private static final Pattern JSON_LEVELS = Pattern.compile("\"format\"\\s*:\\s*\"" + LevelListFiles.FORMAT + "\"");
 
     /**
-     * A user's file as read: its data set and, for an isotope table or a quantum-defect set, the
-     * whole content behind the record.
+     * A user's file as read: its data set and, for an isotope table, the nuclear data behind the
+     * record (named after the file in messages).
      */
-    record UserFile(DataSet set, Optional<NuclearData> nuclear, Optional<QuantumDefectFiles.Content> quantumDefects) {
+    record UserFile(DataSet set, Optional<NuclearData> nuclear) {
         UserFile {
             Objects.requireNonNull(set, "set");
         }
@@ -55,12 +55,12 @@ public final class UserFiles {
         if (text.stripLeading().startsWith("# " + QuantumDefectFiles.FORMAT)) {
             QuantumDefectFiles.Content content = QuantumDefectFiles.read(
                     new ByteArrayInputStream(text.getBytes(StandardCharsets.UTF_8)), name, nuclear.get());
-            return new UserFile(content.defects(), Optional.empty(), Optional.of(content));
+            return new UserFile(content.defects(), Optional.empty());
         }
         boolean json = TabularFiles.isJson(name, text);
         if (!json && NuclearData.looksLikeIsotopes(text)) {
             NuclearData data = NuclearData.readUser(text, name);
-            return new UserFile(data.table(), Optional.of(data), Optional.empty());
+            return new UserFile(data.table(), Optional.of(data));
         }
         boolean levels = json ? JSON_LEVELS.matcher(text).find()
                 : text.stripLeading().startsWith("# " + LevelListFiles.FORMAT);
@@ -70,6 +70,6 @@ public final class UserFiles {
         } else {
             set = json ? LineListFiles.readJson(text, name, DataKind.LINES) : LineListFiles.readCsv(text, name, DataKind.LINES);
         }
-        return new UserFile(set, Optional.empty(), Optional.empty());
+        return new UserFile(set, Optional.empty());
     }
 }

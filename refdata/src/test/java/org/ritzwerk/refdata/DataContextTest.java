@@ -15,6 +15,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Collections;
 import java.util.List;
+import java.util.Optional;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
@@ -22,12 +23,15 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
+import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
-import org.ritzwerk.engine.rydberg.State;
 
 /**
  * The data context: it answers like the built-in data when built from it, and a user's file or a
@@ -252,6 +256,54 @@ class DataContextTest {
             assertEquals(LevelOrigin.QUANTUM_DEFECT_FIT, rb.level(S50).origin());
             assertEquals(33690.8 - rydberg / (47.0 * 47.0), rb.energyPerCm(S50), 1e-9);
             assertNotEquals(DataContext.builtIn().alkaliAtom(RB87).energyPerCm(S50), rb.energyPerCm(S50));
+        }
+    }
+
+    /**
+     * A third party can supply a whole alkali atom through the api alone: its quantum-defect record
+     * carries the core polarizabilities and names its own levels set. Here the jar supplies the
+     * built-in Rb-87 values under other ids (so nothing is shadowed and the third-party sets win by
+     * precedence), and the context builds the same atom as from the built-in data.
+     */
+    @Test
+    void aThirdPartyQuantumDefectSetWithCoreAndLevelsGivesTheWholeAtom(@TempDir Path dir) throws IOException {
+        DataContext builtIn = DataContext.builtIn();
+        QuantumDefects defects = (QuantumDefects) builtIn.registry().load("quantum-defects-rb-87");
+        LevelList levels = (LevelList) builtIn.registry().load(defects.levelsId().orElseThrow());
+        assertTrue(defects.corePolarizability().isPresent(), "the built-in set carries its core polarizabilities");
+        String source = ProviderJars.wholeAlkaliSource("com.example.rydberg.WholeRubidium", defects, levels,
+                "example-qd-rb-87", "example-levels-rb-87");
+        Path jar = ProviderJars.build(dir, "com.example.rydberg.WholeRubidium", source);
+        try (URLClassLoader loader = new URLClassLoader(new URL[] {jar.toUri().toURL()}, getClass().getClassLoader())) {
+            DataContext theirs = DataContext.of(DataRegistry.discover(loader));
+            AlkaliAtom mine = builtIn.alkaliAtom(RB87);
+            AlkaliAtom rb = theirs.alkaliAtom(RB87);
+            assertEquals("example-qd-rb-87", rb.quantumDefects().info().id());
+            assertEquals(Optional.of("example-levels-rb-87"), rb.quantumDefects().levelsId());
+            assertEquals(mine.quantumDefects().series(), rb.quantumDefects().series());
+            assertEquals(mine.quantumDefects().limitPerCm(), rb.quantumDefects().limitPerCm(), 0.0);
+            assertEquals(mine.rydbergPerCm(), rb.rydbergPerCm(), 0.0);
+            assertEquals(mine.corePolarizability(), rb.corePolarizability());
+            assertEquals(levels.size(), rb.measuredLevels().size());
+            for (int i = 0; i < levels.size(); i++) {
+                MeasuredLevel a = mine.measuredLevels().get(i);
+                MeasuredLevel b = rb.measuredLevels().get(i);
+                assertEquals(a.state(), b.state());
+                assertEquals(a.energyPerCm(), b.energyPerCm(), 0.0);
+                assertTrue(b.source().startsWith("example-levels-rb-87 "), b.source());
+            }
+            // Measured, fitted and core-polarization levels, a dipole element and a lifetime: all the same numbers.
+            for (String label : List.of("5s1/2", "5p3/2", "4d5/2", "30d5/2", "50s1/2", "60p3/2", "40f7/2", "20g9/2")) {
+                State state = State.parse(label);
+                assertEquals(mine.level(state).origin(), rb.level(state).origin(), label);
+                assertEquals(mine.energyPerCm(state), rb.energyPerCm(state), 0.0, label);
+            }
+            assertEquals(LevelOrigin.MEASURED, rb.level(State.parse("5p3/2")).origin());
+            assertEquals(LevelOrigin.CORE_POLARIZATION, rb.level(State.parse("20g9/2")).origin());
+            State s60 = State.parse("60s1/2");
+            State p60 = State.parse("60p3/2");
+            assertEquals(mine.reducedDipole(s60, p60), rb.reducedDipole(s60, p60), 0.0);
+            assertEquals(mine.radiativeLifetime(s60), rb.radiativeLifetime(s60), 0.0);
         }
     }
 

@@ -7,18 +7,19 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.InputStream;
 import java.util.List;
+import java.util.Optional;
 import java.util.stream.Collectors;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
-import org.ritzwerk.engine.rydberg.ModelPotential;
 import org.ritzwerk.engine.rydberg.RydbergException;
-import org.ritzwerk.engine.rydberg.State;
 
 /** The built-in Rydberg data: what the provider offers, how the files read, and how broken files are refused. */
 class RydbergDataTest {
@@ -117,6 +118,24 @@ class RydbergDataTest {
         assertEquals(DataFileException.INVALID, e.code());
         assertEquals(List.of("qd.missing-key"), e.problems().stream().map(DataProblem::code).collect(Collectors.toList()));
         assertTrue(e.getMessage().contains("limit-per-cm"), e.getMessage());
+    }
+
+    @Test
+    void aLevelsIdThatIsNotAnIdIsRefusedWithItsLine() {
+        DataFileException e = assertThrows(DataFileException.class, () -> read("quantum-defects-bad-levels-id.csv"));
+        assertEquals(List.of("qd.bad-levels:11"), e.problems().stream().map(p -> p.code() + ":" + p.line())
+                .collect(Collectors.toList()));
+        assertTrue(e.getMessage().contains("'Levels RB 87'"), e.getMessage());
+    }
+
+    @Test
+    void theBuiltInSetsCarryTheirCorePolarizabilitiesAndLevelsIds() {
+        for (Species species : RydbergData.builtIn().species()) {
+            QuantumDefects set = RydbergData.builtIn().quantumDefects(species).defects();
+            assertEquals(Optional.of(RydbergData.builtIn().levels(species).info().id()), set.levelsId(), species.notation());
+            assertTrue(set.corePolarizability().isPresent(), species.notation());
+            assertEquals(set.corePolarizability(), RydbergData.builtIn().atom(species).corePolarizability());
+        }
     }
 
     @Test

@@ -6,12 +6,12 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.DecayChannel;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
 import org.ritzwerk.engine.rydberg.Level;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
-import org.ritzwerk.engine.rydberg.State;
 import org.ritzwerk.medium.Medium;
 
 /** Typical uses of the Rydberg API, compiled so they never drift (figures rounded as printed). */

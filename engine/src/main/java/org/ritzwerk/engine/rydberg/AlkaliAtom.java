@@ -8,7 +8,11 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.CorePolarizability;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.angular.WignerSymbols;
 
@@ -127,10 +131,24 @@ public final class AlkaliAtom {
     }
 
     /**
+     * @param defects  the quantum-defect set (limit, R_M, series), with the core polarizabilities it
+     *                 carries, if any ({@link QuantumDefects#corePolarizability()}); its levels id is
+     *                 not looked up here (a data context does that)
+     * @param measured measured levels (used instead of the formula wherever given); may be empty
+     * @return the atom, with the default Numerov step
+     * @throws IllegalArgumentException for duplicate series or levels, or a level above the limit
+     */
+    public static AlkaliAtom of(QuantumDefects defects, List<MeasuredLevel> measured) {
+        Objects.requireNonNull(defects, "defects");
+        return of(defects, measured, defects.corePolarizability().orElse(null));
+    }
+
+    /**
      * @param defects  the quantum-defect set (limit, R_M, series)
      * @param measured measured levels (used instead of the formula wherever given); may be empty
      * @param core     the core polarizabilities, or null when unknown (then l above the series is
-     *                 hydrogenic and the Coulomb approximation integrates to the origin)
+     *                 hydrogenic and the Coulomb approximation integrates to the origin); these are
+     *                 used whatever the set carries
      * @return the atom, with the default Numerov step
      * @throws IllegalArgumentException for duplicate series or levels, or a level above the limit
      */

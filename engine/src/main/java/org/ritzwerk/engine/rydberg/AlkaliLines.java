@@ -5,6 +5,7 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Objects;
 import java.util.function.DoubleConsumer;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 
 /**

@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.rydberg;
 
 import java.util.Objects;
+import org.ritzwerk.atom.State;
 
 /**
  * One electric-dipole channel out of a state.

@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.rydberg;
 
 import java.util.Objects;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.medium.Medium;
 

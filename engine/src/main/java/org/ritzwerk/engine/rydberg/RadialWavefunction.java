@@ -1,6 +1,8 @@
 package org.ritzwerk.engine.rydberg;
 
 import java.util.Objects;
+import org.ritzwerk.atom.State;
+import org.ritzwerk.data.ModelPotential;
 
 /**
  * A normalised radial wavefunction {@code R(r)} in the Coulomb approximation, from Numerov
@@ -138,7 +140,7 @@ public final class RadialWavefunction {
         if (model == null) {
             return -8 + a * x2 + centrifugal / x2;
         }
-        return 8 * x2 * model.potential(l, x2 * lengthScale) + a * x2 + centrifugal / x2;
+        return 8 * x2 * ModelPotentials.potential(model, l, x2 * lengthScale) + a * x2 + centrifugal / x2;
     }
 
     /**

@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 
 /** Lines of an alkali atom in a window: selection rules, ordering, and the f-A relation. */

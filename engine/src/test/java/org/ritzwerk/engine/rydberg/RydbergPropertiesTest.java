@@ -7,7 +7,12 @@ import static org.quicktheories.QuickTheory.qt;
 import static org.quicktheories.generators.SourceDSL.integers;
 
 import java.util.List;
+import java.util.Optional;
 import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.State;
+import org.ritzwerk.data.CorePolarizability;
+import org.ritzwerk.data.ModelPotential;
+import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.hydrogenic.RadialIntegrals;
 
 /**
@@ -229,31 +234,34 @@ class RydbergPropertiesTest {
     }
 
     @Test
+    void theCoreASetCarriesIsUsedUnlessOneIsGiven() {
+        QuantumDefects bare = rubidium.quantumDefects();
+        CorePolarizability core = rubidium.corePolarizability().orElseThrow();
+        State g = State.of(30, 4, 9);
+        AlkaliAtom fromSet = AlkaliAtom.of(bare.withCorePolarizability(core), rubidium.measuredLevels());
+        assertEquals(Optional.of(core), fromSet.corePolarizability());
+        assertEquals(LevelOrigin.CORE_POLARIZATION, fromSet.level(g).origin());
+        assertEquals(rubidium.energyPerCm(g), fromSet.energyPerCm(g), 0.0);
+        AlkaliAtom without = AlkaliAtom.of(bare, rubidium.measuredLevels());
+        assertEquals(Optional.empty(), without.corePolarizability());
+        assertEquals(LevelOrigin.HYDROGENIC, without.level(g).origin());
+        // an explicit argument wins over what the set carries
+        assertEquals(Optional.empty(), AlkaliAtom.of(bare.withCorePolarizability(core), List.of(), null)
+                .corePolarizability());
+    }
+
+    @Test
     void modelPotentialTendsToTheNuclearAndTheIonicCharge() {
         // Marinescu et al. (1994) eq. 6: Z_l(r) -> Z at the nucleus and -> 1 far out (Rb l = 0 parameters)
         ModelPotential rb = new ModelPotential(37, 9.076, List.of(new ModelPotential.Parameters(3.69628474,
                 1.64915255, -9.86069196, 0.19579987, 1.66242117)), "Marinescu et al. 1994, Table I (from memory)");
-        assertEquals(-37 / 1e-4, rb.potential(0, 1e-4), 1e-2 * 37 / 1e-4);
-        assertEquals(-1 / 200.0 - 9.076 / (2 * Math.pow(200, 4)), rb.potential(0, 200), 1e-12);
-        assertEquals(rb.potential(0, 3), rb.potential(7, 3), 0.0);
+        assertEquals(-37 / 1e-4, ModelPotentials.potential(rb, 0, 1e-4), 1e-2 * 37 / 1e-4);
+        assertEquals(-1 / 200.0 - 9.076 / (2 * Math.pow(200, 4)), ModelPotentials.potential(rb, 0, 200), 1e-12);
+        assertEquals(ModelPotentials.potential(rb, 0, 3), ModelPotentials.potential(rb, 7, 3), 0.0);
         // with the model potential the Rydberg functions stay normalised and agree with the Coulomb approximation
         AlkaliAtom model = rubidium.withModelPotential(rb);
         double ca = rubidium.radialDipoleBohr(State.of(40, 0, 1), State.of(40, 1, 3));
         assertEquals(ca, model.radialDipoleBohr(State.of(40, 0, 1), State.of(40, 1, 3)), 1e-4 * Math.abs(ca));
         assertEquals(1.0, model.expectationBohr(State.of(40, 0, 1), 0), 1e-12);
-    }
-
-    @Test
-    void stateLabelsReadBack() {
-        qt().withFixedSeed(SEED).forAll(integers().between(1, 500), integers().between(0, 16), integers().between(0, 1))
-                .checkAssert((n, lSeed, j) -> {
-                    int l = lSeed % n;
-                    State s = State.of(n, l, l == 0 ? 1 : 2 * l - 1 + 2 * j);
-                    assertEquals(s, State.parse(s.label()));
-                });
-        assertEquals("43d 2D5/2", State.parse("43d5/2").notation());
-        assertThrows(IllegalArgumentException.class, () -> State.parse("43d7/2"));
-        assertThrows(IllegalArgumentException.class, () -> State.parse("5x1/2"));
-        assertThrows(IllegalArgumentException.class, () -> State.of(3, 3, 7));
     }
 }

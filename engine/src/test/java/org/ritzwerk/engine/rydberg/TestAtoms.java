@@ -3,9 +3,12 @@ package org.ritzwerk.engine.rydberg;
 import java.util.ArrayList;
 import java.util.List;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.MeasuredLevel;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
 

@@ -1,6 +1,7 @@
-package org.ritzwerk.engine.rydberg;
+package org.ritzwerk.data;
 
 import java.util.Objects;
+import org.ritzwerk.atom.State;
 
 /**
  * A measured level energy handed to the model, which uses it instead of any formula.

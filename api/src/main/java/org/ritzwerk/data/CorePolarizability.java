@@ -1,11 +1,11 @@
-package org.ritzwerk.engine.rydberg;
+package org.ritzwerk.data;
 
 import java.util.Objects;
 
 /**
- * Static dipole and quadrupole polarizabilities of the ionic core, which give the quantum
- * defects of the high-l (non-penetrating) series and the inner cut-off radius of the Coulomb
- * approximation.
+ * Static dipole and quadrupole polarizabilities of the singly charged ionic core of an alkali-like
+ * atom. The engine takes from them the quantum defects of the high-l (non-penetrating) series and
+ * the inner cut-off radius alpha_d^(1/3) of the Coulomb approximation. Immutable and thread-safe.
  *
  * @param dipoleAu     dipole polarizability alpha_d in atomic units (a0^3); finite, positive
  * @param quadrupoleAu quadrupole polarizability alpha_q in atomic units (a0^5); finite, not negative
@@ -23,10 +23,5 @@ public record CorePolarizability(double dipoleAu, double quadrupoleAu, String so
         if (source.isBlank()) {
             throw new IllegalArgumentException("core polarizabilities need a source");
         }
-    }
-
-    /** @return the core radius alpha_d^(1/3) in a0, where the Coulomb approximation stops integrating */
-    public double coreRadiusBohr() {
-        return Math.cbrt(dipoleAu);
     }
 }

@@ -1,4 +1,4 @@
-package org.ritzwerk.engine.rydberg;
+package org.ritzwerk.atom;
 
 import java.util.Locale;
 import java.util.regex.Matcher;

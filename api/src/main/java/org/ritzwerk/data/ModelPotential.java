@@ -1,17 +1,19 @@
-package org.ritzwerk.engine.rydberg;
+package org.ritzwerk.data;
 
 import java.util.List;
 import java.util.Objects;
 
 /**
- * The l-dependent core model potential of M. Marinescu, H. R. Sadeghpour and A. Dalgarno, Phys.
- * Rev. A 49, 982 (1994), eqs. 5 to 7, in atomic units (lengths in a0, energies in hartree):
+ * The parameters of the l-dependent core model potential of M. Marinescu, H. R. Sadeghpour and
+ * A. Dalgarno, Phys. Rev. A 49, 982 (1994), eqs. 5 to 7, in atomic units (lengths in a0, energies
+ * in hartree):
  * <pre>
  *   V_l(r) = -Z_l(r) / r - alpha_c / (2 r^4) [1 - exp(-(r / r_c)^6)],
  *   Z_l(r) = 1 + (Z - 1) exp(-a1 r) - r (a3 + a4 r) exp(-a2 r),
  * </pre>
- * with one parameter set per l (the last one serves every higher l). Spin-orbit coupling is not
- * included. Immutable and thread-safe.
+ * with one parameter set per l (the last one serves every higher l). This record only describes
+ * the potential; the engine evaluates it ({@code org.ritzwerk.engine.rydberg.ModelPotentials}).
+ * Immutable and thread-safe.
  *
  * @param z      nuclear charge Z
  * @param alphaC core dipole polarizability alpha_c, a0^3
@@ -52,15 +54,13 @@ public record ModelPotential(int z, double alphaC, List<Parameters> sets, String
 
     /**
      * @param l orbital quantum number, not negative
-     * @param r radius in a0, positive
-     * @return V_l(r) in hartree
+     * @return the parameters that serve l: those of l, or the last set when l is beyond it
+     * @throws IllegalArgumentException for a negative l
      */
-    public double potential(int l, double r) {
-        Parameters p = sets.get(Math.min(l, sets.size() - 1));
-        double zl = 1 + (z - 1) * Math.exp(-p.a1() * r) - r * (p.a3() + p.a4() * r) * Math.exp(-p.a2() * r);
-        double r2 = r * r;
-        double x = r / p.rc();
-        double x3 = x * x * x;
-        return -zl / r - alphaC / (2 * r2 * r2) * (1 - Math.exp(-x3 * x3));
+    public Parameters parametersFor(int l) {
+        if (l < 0) {
+            throw new IllegalArgumentException("orbital quantum number l must be >= 0, got " + l);
+        }
+        return sets.get(Math.min(l, sets.size() - 1));
     }
 }
