@@ -6,8 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
-import java.io.OutputStream;
-import java.net.URISyntaxException;
 import java.net.URL;
 import java.net.URLClassLoader;
 import java.nio.charset.StandardCharsets;
@@ -15,23 +13,18 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import java.util.concurrent.Callable;
-import java.util.jar.JarEntry;
-import java.util.jar.JarOutputStream;
 import java.util.stream.Collectors;
-import javax.tools.JavaCompiler;
-import javax.tools.ToolProvider;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
-import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.data.ReferenceDataProvider;
 import org.ritzwerk.refdata.DataContext;
 import org.ritzwerk.refdata.NuclearData;
+import org.ritzwerk.testing.ProviderJars;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 
@@ -69,25 +62,6 @@ class DataContextCommandTest {
             "  public DataSet load(String id) {",
             "    return new IsotopeTable(info(), List.of(",
             "        new Isotope(1, 1, 1.5, 0, 1, OptionalDouble.of(2.79284734463), OptionalDouble.of(0.8414), \"x\")));",
-            "  }",
-            "}");
-
-    /** Rb-87 quantum defects as a bare record: one s series, d0 = 3 from n = 5 (invented for tests). */
-    private static final String RYDBERG_PROVIDER = String.join("\n",
-            "package com.example.rydberg;",
-            "import java.util.List;",
-            "import org.ritzwerk.atom.Species;",
-            "import org.ritzwerk.data.*;",
-            "public final class PlainRubidium implements ReferenceDataProvider {",
-            "  public String id() { return \"example-rydberg\"; }",
-            "  private static DataSetInfo info() {",
-            "    return new DataSetInfo(\"example-rb-87\", DataKind.QUANTUM_DEFECTS, \"invented defects\", \"1\",",
-            "        Provenance.published(\"invented for tests\"), List.of(Species.parse(\"Rb-87 I\")));",
-            "  }",
-            "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
-            "  public DataSet load(String id) {",
-            "    return new QuantumDefects(info(), Species.parse(\"Rb-87 I\"), 33690.8, 109736.0,",
-            "        List.of(new QuantumDefects.Series(0, 1, List.of(3.0), 5)));",
             "  }",
             "}");
 
@@ -162,7 +136,8 @@ class DataContextCommandTest {
     @Test
     void aThirdPartyQuantumDefectSetMovesTheRydbergLevels(@TempDir Path dir) throws Exception {
         double before = rb50s();
-        double after = withProvider(dir, "com.example.rydberg.PlainRubidium", RYDBERG_PROVIDER, () -> rb50s());
+        double after = withProvider(dir, "com.example.rydberg.PlainRubidium", ProviderJars.PLAIN_RB87_SOURCE,
+                () -> rb50s());
         double rydberg = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I")).rydbergPerCm();
         assertEquals(33690.8 - rydberg / (47.0 * 47.0), after, 1e-6);
         assertNotEquals(before, after);
@@ -179,7 +154,7 @@ class DataContextCommandTest {
         DataContext builtIn = DataContext.builtIn();
         QuantumDefects defects = (QuantumDefects) builtIn.registry().load("quantum-defects-rb-87");
         LevelList levels = (LevelList) builtIn.registry().load(defects.levelsId().orElseThrow());
-        String source = wholeAlkaliSource("com.example.rydberg.WholeRubidium", defects, levels, "example-qd-rb-87",
+        String source = ProviderJars.wholeAlkaliSource("com.example.rydberg.WholeRubidium", defects, levels, "example-qd-rb-87",
                 "example-levels-rb-87");
         String[] args = {"levels", "--species", "Rb-87 I", "--n-max", "20", "--l-max", "4", "--lifetimes",
             "--format", "csv"};
@@ -197,77 +172,6 @@ class DataContextCommandTest {
         assertEquals(0, after.code(), after.err());
         assertEquals(before.out(), after.out());
         assertEquals(before.err(), after.err());
-    }
-
-    /**
-     * @return the source of a provider that supplies {@code defects} (with its core polarizabilities,
-     *         naming {@code levelsId}) and {@code levels} under the ids given, against the api only;
-     *         the numbers are written as literals that read back to the same doubles
-     */
-    private static String wholeAlkaliSource(String className, QuantumDefects defects, LevelList levels, String qdId,
-            String levelsId) {
-        int dot = className.lastIndexOf('.');
-        StringBuilder src = new StringBuilder();
-        src.append("package ").append(className, 0, dot).append(";\n")
-                .append("import java.util.List;\nimport java.util.Optional;\nimport org.ritzwerk.atom.Species;\n")
-                .append("import org.ritzwerk.data.*;\nimport org.ritzwerk.quantity.Unit;\n")
-                .append("public final class ").append(className.substring(dot + 1))
-                .append(" implements ReferenceDataProvider {\n")
-                .append("  private static final Species ATOM = Species.parse(").append(quote(defects.species().notation()))
-                .append(");\n")
-                .append("  public String id() { return \"example-whole-alkali\"; }\n")
-                .append("  private static DataSetInfo info(String id, DataKind kind) {\n")
-                .append("    return new DataSetInfo(id, kind, \"as the built-in set\", \"1\", ")
-                .append("Provenance.published(").append(quote(defects.info().provenance().detail()))
-                .append("), List.of(ATOM));\n  }\n")
-                .append("  public List<DataSetInfo> dataSets() {\n    return List.of(info(").append(quote(qdId))
-                .append(", DataKind.QUANTUM_DEFECTS), info(").append(quote(levelsId)).append(", DataKind.LEVELS));\n  }\n")
-                .append("  public DataSet load(String id) {\n")
-                .append("    if (id.equals(").append(quote(levelsId)).append(")) {\n")
-                .append("      return LevelList.builder(info(id, DataKind.LEVELS), Unit.PER_CENTIMETRE, \"\")");
-        for (int i = 0; i < levels.size(); i++) {
-            src.append("\n          .add(ATOM, ").append(quote(levels.label(i))).append(", ")
-                    .append(literal(levels.energy(i))).append(", ")
-                    .append(literal(levels.uncertainty(i).orElse(Double.NaN))).append(", ").append(levels.twoJ(i))
-                    .append(", null)");
-        }
-        src.append("\n          .build();\n    }\n")
-                .append("    return new QuantumDefects(info(id, DataKind.QUANTUM_DEFECTS), ATOM, ")
-                .append(literal(defects.limitPerCm())).append(", ").append(literal(defects.rydbergPerCm()))
-                .append(", List.of(");
-        for (int i = 0; i < defects.series().size(); i++) {
-            QuantumDefects.Series series = defects.series().get(i);
-            src.append(i == 0 ? "" : ",").append("\n        new QuantumDefects.Series(").append(series.l()).append(", ")
-                    .append(series.twoJ()).append(", List.of(");
-            for (int k = 0; k < series.coefficients().size(); k++) {
-                src.append(k == 0 ? "" : ", ").append(literal(series.coefficients().get(k)));
-            }
-            src.append("), ").append(series.validFromN()).append(")");
-        }
-        CorePolarizability core = defects.corePolarizability().orElseThrow();
-        src.append("),\n        Optional.of(new CorePolarizability(").append(literal(core.dipoleAu())).append(", ")
-                .append(literal(core.quadrupoleAu())).append(", ").append(quote(core.source())).append(")),\n")
-                .append("        Optional.of(").append(quote(levelsId)).append("));\n  }\n}\n");
-        return src.toString();
-    }
-
-    private static String literal(double value) {
-        return Double.isNaN(value) ? "Double.NaN" : Double.toString(value);
-    }
-
-    /** @return a Java string literal of {@code text}, ASCII only (so the platform encoding does not matter) */
-    private static String quote(String text) {
-        StringBuilder out = new StringBuilder("\"");
-        for (char c : text.toCharArray()) {
-            if (c == '"' || c == '\\') {
-                out.append('\\').append(c);
-            } else if (c < 0x20 || c > 0x7e) {
-                out.append(String.format("\\u%04x", (int) c));
-            } else {
-                out.append(c);
-            }
-        }
-        return out.append('"').toString();
     }
 
     /** @return the energy of Rb-87 50s in cm-1 as {@code levels} prints it */
@@ -371,7 +275,7 @@ class DataContextCommandTest {
      * with the jar on the context class loader, which the command line's discovery searches.
      */
     private static <T> T withProvider(Path dir, String className, String source, Callable<T> body) throws Exception {
-        Path jar = providerJar(dir, className, source);
+        Path jar = ProviderJars.build(dir, className, source);
         Thread thread = Thread.currentThread();
         ClassLoader previous = thread.getContextClassLoader();
         try (URLClassLoader loader = new URLClassLoader(new URL[] {jar.toUri().toURL()},
@@ -380,37 +284,6 @@ class DataContextCommandTest {
             return body.call();
         } finally {
             thread.setContextClassLoader(previous);
-        }
-    }
-
-    private static Path providerJar(Path dir, String className, String source) throws IOException {
-        String path = className.replace('.', '/');
-        Path file = dir.resolve("src/" + path + ".java");
-        Files.createDirectories(file.getParent());
-        Files.writeString(file, source, StandardCharsets.UTF_8);
-        Path classes = dir.resolve("classes");
-        Files.createDirectories(classes);
-        JavaCompiler compiler = ToolProvider.getSystemJavaCompiler();
-        int status = compiler.run(null, null, null, "-d", classes.toString(), "-cp",
-                location(ReferenceDataProvider.class).toString(), file.toString());
-        assertEquals(0, status, "the test provider compiles");
-        Path jar = dir.resolve(className.substring(className.lastIndexOf('.') + 1).toLowerCase(Locale.ROOT) + ".jar");
-        try (JarOutputStream out = new JarOutputStream(Files.newOutputStream(jar))) {
-            out.putNextEntry(new JarEntry("META-INF/services/org.ritzwerk.data.ReferenceDataProvider"));
-            out.write((className + "\n").getBytes(StandardCharsets.UTF_8));
-            out.closeEntry();
-            out.putNextEntry(new JarEntry(path + ".class"));
-            Files.copy(classes.resolve(path + ".class"), (OutputStream) out);
-            out.closeEntry();
-        }
-        return jar;
-    }
-
-    private static Path location(Class<?> type) {
-        try {
-            return Path.of(type.getProtectionDomain().getCodeSource().getLocation().toURI());
-        } catch (URISyntaxException e) {
-            throw new IllegalStateException(e);
         }
     }
 }

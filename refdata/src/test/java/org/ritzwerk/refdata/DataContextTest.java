@@ -32,6 +32,7 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
+import org.ritzwerk.testing.ProviderJars;
 
 /**
  * The data context: it answers like the built-in data when built from it, and a user's file or a
@@ -75,25 +76,6 @@ class DataContextTest {
             "    return new IsotopeTable(info(), List.of(",
             "        new Isotope(1, 1, 1.5, 0, 1, OptionalDouble.of(2.79284734463), OptionalDouble.of(0.8414), \"invented\"),",
             "        new Isotope(37, 87, 88.0, 0, 3, OptionalDouble.of(2.75), OptionalDouble.of(4.1989), \"invented\")));",
-            "  }",
-            "}");
-
-    /** A third party's Rb-87 quantum defects: one s series with d0 = 3 from n = 5 (invented for tests). */
-    private static final String RYDBERG_PROVIDER = String.join("\n",
-            "package com.example.rydberg;",
-            "import java.util.List;",
-            "import org.ritzwerk.atom.Species;",
-            "import org.ritzwerk.data.*;",
-            "public final class PlainRubidium implements ReferenceDataProvider {",
-            "  public String id() { return \"example-rydberg\"; }",
-            "  private static DataSetInfo info() {",
-            "    return new DataSetInfo(\"example-rb-87\", DataKind.QUANTUM_DEFECTS, \"invented defects\", \"1\",",
-            "        Provenance.published(\"invented for tests\"), List.of(Species.parse(\"Rb-87 I\")));",
-            "  }",
-            "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
-            "  public DataSet load(String id) {",
-            "    return new QuantumDefects(info(), Species.parse(\"Rb-87 I\"), 33690.8, 109736.0,",
-            "        List.of(new QuantumDefects.Series(0, 1, List.of(3.0), 5)));",
             "  }",
             "}");
 
@@ -243,7 +225,7 @@ class DataContextTest {
 
     @Test
     void aThirdPartyQuantumDefectSetChangesRydbergLevels(@TempDir Path dir) throws IOException {
-        Path jar = ProviderJars.build(dir, "com.example.rydberg.PlainRubidium", RYDBERG_PROVIDER);
+        Path jar = ProviderJars.build(dir, "com.example.rydberg.PlainRubidium", ProviderJars.PLAIN_RB87_SOURCE);
         try (URLClassLoader loader = new URLClassLoader(new URL[] {jar.toUri().toURL()}, getClass().getClassLoader())) {
             DataContext theirs = DataContext.of(DataRegistry.discover(loader));
             AlkaliAtom rb = theirs.alkaliAtom(RB87);

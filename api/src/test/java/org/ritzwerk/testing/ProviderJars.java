@@ -1,4 +1,4 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.testing;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
@@ -17,8 +17,34 @@ import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.data.ReferenceDataProvider;
 
-/** Compiles a provider's source and packs it, with its ServiceLoader entry, into a jar, as a third party would. */
-final class ProviderJars {
+/**
+ * Compiles a provider's source and packs it, with its ServiceLoader entry, into a jar, as a third
+ * party would; shared by the refdata and command-line tests (api test-jar).
+ */
+public final class ProviderJars {
+
+    /**
+     * The source of a third party's provider of one Rb-87 quantum-defect set as a bare record: one
+     * s series with d0 = 3 from n = 5, no core polarizabilities, no levels set (invented for tests).
+     * Its class is {@code com.example.rydberg.PlainRubidium}.
+     */
+    public static final String PLAIN_RB87_SOURCE = String.join("\n",
+            "package com.example.rydberg;",
+            "import java.util.List;",
+            "import org.ritzwerk.atom.Species;",
+            "import org.ritzwerk.data.*;",
+            "public final class PlainRubidium implements ReferenceDataProvider {",
+            "  public String id() { return \"example-rydberg\"; }",
+            "  private static DataSetInfo info() {",
+            "    return new DataSetInfo(\"example-rb-87\", DataKind.QUANTUM_DEFECTS, \"invented defects\", \"1\",",
+            "        Provenance.published(\"invented for tests\"), List.of(Species.parse(\"Rb-87 I\")));",
+            "  }",
+            "  public List<DataSetInfo> dataSets() { return List.of(info()); }",
+            "  public DataSet load(String id) {",
+            "    return new QuantumDefects(info(), Species.parse(\"Rb-87 I\"), 33690.8, 109736.0,",
+            "        List.of(new QuantumDefects.Series(0, 1, List.of(3.0), 5)));",
+            "  }",
+            "}");
 
     private ProviderJars() {
     }
@@ -29,7 +55,7 @@ final class ProviderJars {
      * @param source    its Java source, compiled against the api module only
      * @return the jar
      */
-    static Path build(Path dir, String className, String source) throws IOException {
+    public static Path build(Path dir, String className, String source) throws IOException {
         String simple = className.substring(className.lastIndexOf('.') + 1);
         String path = className.replace('.', '/');
         Path file = dir.resolve("src/" + path + ".java");
@@ -66,7 +92,7 @@ final class ProviderJars {
      * @param levelsId  the id of the supplied levels set
      * @return the Java source
      */
-    static String wholeAlkaliSource(String className, QuantumDefects defects, LevelList levels, String qdId,
+    public static String wholeAlkaliSource(String className, QuantumDefects defects, LevelList levels, String qdId,
             String levelsId) {
         int dot = className.lastIndexOf('.');
         StringBuilder src = new StringBuilder();
