@@ -19,6 +19,7 @@ import org.ritzwerk.engine.synth.Continuum;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.engine.synth.SceneException;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.OutputFiles;
@@ -240,18 +241,17 @@ final class SynthCommand implements Callable<Integer> {
         if (!noNoise) {
             option("--read-noise", () -> builder.noise(readNoise, seed));
         }
-        Scene scene;
-        try {
-            scene = builder.build();
-        } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException(e.getMessage().replace("nMax", "--n-max"), e);
+        if (naturalWidths && nMax > Scene.MAX_N_WITH_NATURAL_WIDTHS && !resolved.isEmpty()) {
+            throw new IllegalArgumentException("--natural-widths are computed up to n = "
+                    + Scene.MAX_N_WITH_NATURAL_WIDTHS + "; lower --n-max (" + nMax + ") or leave them out");
         }
+        Scene scene = builder.build();
         SyntheticSpectrum spectrum;
         try {
             spectrum = scene.render(threadCount, Progress.on(spec.commandLine().getErr(),
                     "synth: rendering " + scene.lines().size() + " lines onto " + grid.pixels() + " pixels"));
-        } catch (IllegalArgumentException e) {
-            if (e.getMessage().startsWith("no line falls")) {
+        } catch (SceneException e) {
+            if (e.code().equals(SceneException.NO_LIGHT)) {
                 throw new IllegalArgumentException("no line of " + emitters() + " falls between "
                         + (dispersion == null ? from + " and " + to : fmt(spectrumEdge(0)) + " nm and "
                         + fmt(spectrumEdge(1)) + " nm") + " (n <= " + nMax + "); widen the range or raise --n-max", e);

@@ -114,8 +114,9 @@ public final class Scene {
     /**
      * @param threads threads for the line rendering, 1 to 1024; the result does not depend on it
      * @return the rendered spectrum
-     * @throws IllegalArgumentException when no line puts light into the grid and there is no
-     *         continuum, or a continuum density is unusable
+     * @throws SceneException ({@link SceneException#NO_LIGHT}) when no line puts light into the grid
+     *         and there is no continuum
+     * @throws IllegalArgumentException when a continuum density is unusable
      */
     public SyntheticSpectrum render(int threads) {
         return render(threads, null);
@@ -139,8 +140,8 @@ public final class Scene {
             brightest = Math.max(brightest, v);
         }
         if (brightest == 0 && continuum == null) {
-            throw new IllegalArgumentException("no line falls on the grid from " + grid.edge(0) + " to "
-                    + grid.edge(pixels) + " nm; widen the range, raise nMax or add emitters");
+            throw new SceneException(SceneException.NO_LIGHT, "no line falls on the grid from " + grid.edge(0)
+                    + " to " + grid.edge(pixels) + " nm; widen the range, raise nMax or add emitters");
         }
         double scale = brightest == 0 ? 0 : peakCounts / brightest;
         double[] expected = new double[pixels];

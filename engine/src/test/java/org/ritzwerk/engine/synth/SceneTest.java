@@ -163,9 +163,10 @@ class SceneTest {
         e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid)
                 .lineList("Ne I", new double[] {500, -1}, new double[] {1, 1}, 3e-26));
         assertTrue(e.getMessage().contains("Ne I line 1"), e.getMessage());
-        e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(PixelGrid.linear(2000, 2100, 10))
+        SceneException dark = assertThrows(SceneException.class, () -> Scene.builder(PixelGrid.linear(2000, 2100, 10))
                 .hydrogenLike(Species.parse("H I"), H, 1).nMax(3).build().render(1));
-        assertTrue(e.getMessage().contains("no line falls"), e.getMessage());
+        assertEquals(SceneException.NO_LIGHT, dark.code());
+        assertTrue(dark.getMessage().contains("no line falls"), dark.getMessage());
         e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid)
                 .hydrogenLike(Species.parse("H I"), H, 1).naturalWidths(true).nMax(100).build());
         assertTrue(e.getMessage().contains("natural widths"), e.getMessage());
