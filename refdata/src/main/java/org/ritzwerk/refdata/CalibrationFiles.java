@@ -9,6 +9,7 @@ import org.ritzwerk.engine.calibrate.DispersionSolution;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
 import tools.jackson.core.JacksonException;
+import tools.jackson.core.StreamReadFeature;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 import tools.jackson.databind.node.ArrayNode;
@@ -147,7 +148,7 @@ public final class CalibrationFiles {
     static Calibration parse(String source, String text) {
         JsonNode root;
         try {
-            root = JsonMapper.builder().build().readTree(text);
+            root = JsonMapper.builder().enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).build().readTree(text);
         } catch (JacksonException e) {
             throw invalid(source, "not valid JSON: " + e.getOriginalMessage());
         }

@@ -11,6 +11,7 @@ import java.util.Locale;
 import java.util.Map;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
 import tools.jackson.core.JacksonException;
+import tools.jackson.core.StreamReadFeature;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 
@@ -322,7 +323,7 @@ public final class SpectrumFiles {
     static Spectrum json(String source, String text) {
         JsonNode root;
         try {
-            root = JsonMapper.builder().build().readTree(text);
+            root = JsonMapper.builder().enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).build().readTree(text);
         } catch (JacksonException e) {
             throw new DataFileException(DataFileException.INVALID, source, List.of(),
                     "not valid JSON: " + e.getOriginalMessage());

@@ -30,6 +30,7 @@ import org.ritzwerk.quantity.Unit;
 import tools.jackson.core.JacksonException;
 import tools.jackson.core.JsonParser;
 import tools.jackson.core.JsonToken;
+import tools.jackson.core.StreamReadFeature;
 import tools.jackson.core.TokenStreamLocation;
 import tools.jackson.databind.DeserializationFeature;
 import tools.jackson.databind.JsonNode;
@@ -59,7 +60,8 @@ final class TabularFiles {
     private static final int MAX_TEXT = 500;
     /** Reads values out of a running parser, so a value is not the end of the input. */
     private static final JsonMapper JSON = JsonMapper.builder()
-            .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
+            .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+            .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).build();
     private static final CsvMapper CSV = CsvMapper.builder().enable(CsvReadFeature.ALLOW_COMMENTS)
             .enable(CsvReadFeature.WRAP_AS_ARRAY).build();
 

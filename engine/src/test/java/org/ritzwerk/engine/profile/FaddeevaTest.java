@@ -39,7 +39,6 @@ class FaddeevaTest {
             rows++;
         }
         assertTrue(rows > 300, "rows " + rows);
-        System.out.println("Faddeeva: worst complex error " + worstComplex + ", worst real-part error " + worstReal);
     }
 
     @Test
