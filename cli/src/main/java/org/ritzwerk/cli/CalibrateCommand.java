@@ -131,6 +131,7 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
+        checkOutputs();
         SpectrumFiles.Spectrum spectrum = SpectrumFiles.read(spectrumFile);
         if (apply != null) {
             return applySolution(spectrum);
@@ -153,13 +154,42 @@ final class CalibrateCommand implements Callable<Integer> {
                 report(spectrum, calibration);
                 break;
         }
-        if (out != null) {
-            CalibrationFiles.write(out, solution, spectrum.pixels(), description, calibration.pairLabels());
-        }
-        if (plot != null) {
-            drawResiduals(solution);
+        // Both files are written to temporary files beside them and moved into place together.
+        try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
+            if (out != null) {
+                batch.text(out, w -> w.write(CalibrationFiles.toJson(solution, spectrum.pixels(), description,
+                        calibration.pairLabels())));
+            }
+            if (plot != null) {
+                drawResiduals(batch, solution);
+            }
+            batch.commit();
         }
         return 0;
+    }
+
+    /**
+     * Refuses, before any work, outputs that name the same file or an input, and outputs whose
+     * folder is missing or cannot be written.
+     */
+    private void checkOutputs() {
+        List<OutputFiles.Named> inputs = new ArrayList<>();
+        inputs.add(new OutputFiles.Named("SPECTRUM_FILE", spectrumFile));
+        inputs.add(new OutputFiles.Named("--apply", apply));
+        for (String set : lineSets) {
+            try {
+                inputs.add(new OutputFiles.Named("--lines", Path.of(set)));
+            } catch (java.nio.file.InvalidPathException e) {
+                // a data set id, not a file
+            }
+        }
+        for (Path file : data.files) {
+            inputs.add(new OutputFiles.Named("--data", file));
+        }
+        List<OutputFiles.Named> outputs = new ArrayList<>();
+        outputs.add(new OutputFiles.Named("--out", out));
+        outputs.add(new OutputFiles.Named("--plot", plot));
+        OutputFiles.check(outputs, inputs);
     }
 
     private Calibrator calibrator() {
@@ -298,14 +328,14 @@ final class CalibrateCommand implements Callable<Integer> {
         return table;
     }
 
-    private void drawResiduals(DispersionSolution solution) throws IOException {
+    private void drawResiduals(OutputFiles.Batch batch, DispersionSolution solution) throws IOException {
         List<double[]> used = new ArrayList<>();
         List<double[]> rejected = new ArrayList<>();
         for (int i = 0; i < solution.size(); i++) {
             double[] point = {solution.pixel(i), solution.residualNm(i) * 1e3, solution.sigmaNm(i) * 1e3};
             (solution.isRejected(i) ? rejected : used).add(point);
         }
-        Plots.residuals(plot, String.format(Locale.ROOT, "Dispersion residuals: degree %d, RMS %.3g pm (%.3g px)",
+        Plots.residuals(batch, plot, String.format(Locale.ROOT, "Dispersion residuals: degree %d, RMS %.3g pm (%.3g px)",
                 solution.degree(), solution.rmsNm() * 1e3, solution.rmsPixels()), "pixel",
                 "residual (pm, " + solution.medium().label() + ")", used, rejected);
     }

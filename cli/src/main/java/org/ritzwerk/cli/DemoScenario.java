@@ -107,8 +107,11 @@ final class DemoScenario {
         this.data = data;
     }
 
+    /** The file that marks a folder as the demo's own, so a later run may replace its files. */
+    static final String MARKER = ".ritzwerk-demo";
+
     Results run() throws IOException {
-        Files.createDirectories(folder);
+        claimFolder();
         Results results = new Results();
         PixelGrid detector = PixelGrid.dispersion(DISPERSION, PIXELS);
         out.println("Ritzwerk demo: the Wrenfield Bench optics lab (an invented scenario; all data generated here)");
@@ -128,6 +131,30 @@ final class DemoScenario {
         out.println("  (the unresolved H+D pairs sit between the H and D lines, hence the wide tolerance)");
         out.flush();
         return results;
+    }
+
+    /**
+     * Makes the output folder, or checks that an existing one is empty or was made by the demo:
+     * a folder holding anything else is refused, so no file of the user's is replaced.
+     */
+    private void claimFolder() throws IOException {
+        if (Files.exists(folder) && !Files.isDirectory(folder)) {
+            throw new IllegalArgumentException("--out-dir " + folder + " is a file, not a folder");
+        }
+        if (Files.isDirectory(folder) && Files.notExists(folder.resolve(MARKER))) {
+            List<String> found = new ArrayList<>();
+            try (var entries = Files.list(folder)) {
+                entries.limit(4).forEach(f -> found.add(f.getFileName().toString()));
+            }
+            if (!found.isEmpty()) {
+                throw new IllegalArgumentException("--out-dir " + folder + " already holds files the demo did not make ("
+                        + String.join(", ", found.subList(0, Math.min(3, found.size())))
+                        + (found.size() > 3 ? ", ..." : "") + "); give a new or empty folder");
+            }
+        }
+        Files.createDirectories(folder);
+        OutputFiles.writeString(folder.resolve(MARKER), "made by `ritzwerk demo`; a later run replaces the demo's"
+                + " files in this folder\n");
     }
 
     // ---- 1. Calibration -------------------------------------------------------------------

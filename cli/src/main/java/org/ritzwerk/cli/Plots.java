@@ -113,6 +113,27 @@ final class Plots {
      */
     static void residuals(Path file, String title, String xTitle, String yTitle, List<double[]> used,
             List<double[]> rejected) throws IOException {
+        try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
+            residuals(batch, file, title, xTitle, yTitle, used, rejected);
+            batch.commit();
+        }
+    }
+
+    /**
+     * As {@link #residuals(Path, String, String, String, List, List)}, staged in a batch that the
+     * caller commits with its other outputs.
+     *
+     * @param batch    the batch the PNG joins
+     * @param file     the PNG to write
+     * @param title    chart title
+     * @param xTitle   x axis title
+     * @param yTitle   y axis title
+     * @param used     points {x, y, sigma} that were used
+     * @param rejected points {x, y, sigma} that were rejected
+     * @throws IOException when the temporary file cannot be written
+     */
+    static void residuals(OutputFiles.Batch batch, Path file, String title, String xTitle, String yTitle,
+            List<double[]> used, List<double[]> rejected) throws IOException {
         System.setProperty("java.awt.headless", "true");
         YIntervalSeriesCollection data = new YIntervalSeriesCollection();
         YIntervalSeries usedSeries = new YIntervalSeries("used");
@@ -145,7 +166,7 @@ final class Plots {
         plot.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(1.0f)));
         JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, true);
         chart.setBackgroundPaint(Color.WHITE);
-        OutputFiles.writeBytes(file, out -> ChartUtils.writeChartAsPNG(out, chart, 1200, 600));
+        batch.bytes(file, out -> ChartUtils.writeChartAsPNG(out, chart, 1200, 600));
     }
 
     /**

@@ -197,4 +197,39 @@ class CalibrateCommandTest {
         assertTrue(CliTest.run("calibrate", spectrum.toString(), "--lamp", "Xe II").err()
                 .contains("no built-in lamp set for Xe II"));
     }
+
+    @Test
+    void outputsAreCheckedBeforeAnyWorkAndOldFilesSurviveAFailure(@TempDir Path dir) throws IOException {
+        Path spectrum = lampSpectrum(dir, 13, false);
+        byte[] original = Files.readAllBytes(spectrum);
+        CliTest.Run overInput = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--out",
+                spectrum.toString());
+        assertEquals(2, overInput.code(), overInput.err());
+        assertTrue(overInput.err().contains("--out") && overInput.err().contains("SPECTRUM_FILE"), overInput.err());
+        assertArrayEquals(original, Files.readAllBytes(spectrum), "the input is untouched");
+
+        Path same = dir.resolve("same.json");
+        CliTest.Run twice = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--out", same.toString(),
+                "--plot", same.toString());
+        assertEquals(2, twice.code(), twice.err());
+        assertTrue(twice.err().contains("--out") && twice.err().contains("--plot"), twice.err());
+        assertTrue(Files.notExists(same));
+
+        CliTest.Run noFolder = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--out",
+                dir.resolve("no/such/folder/c.json").toString());
+        assertEquals(2, noFolder.code(), noFolder.err());
+        assertTrue(noFolder.err().contains("does not exist"), noFolder.err());
+
+        // A calibration that fails (the argon list does not explain a neon lamp) leaves an old file as it was.
+        Path keep = dir.resolve("keep.json");
+        Files.writeString(keep, "precious", StandardCharsets.UTF_8);
+        CliTest.Run fails = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ar I", "--out", keep.toString(),
+                "--plot", dir.resolve("keep.png").toString());
+        assertEquals(2, fails.code(), fails.err());
+        assertEquals("precious", Files.readString(keep));
+        assertTrue(Files.notExists(dir.resolve("keep.png")));
+        try (var files = Files.list(dir)) {
+            assertTrue(files.noneMatch(f -> f.getFileName().toString().endsWith(".part")), "no temporary file left");
+        }
+    }
 }

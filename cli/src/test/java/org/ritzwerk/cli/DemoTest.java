@@ -78,4 +78,23 @@ class DemoTest {
         assertEquals(0, run.code(), run.err());
         assertTrue(run.out().contains("Files written to " + dir.resolve("wrenfield").toAbsolutePath()), run.out());
     }
+
+    @Test
+    void aFolderOfTheUsersIsRefusedAndTheDemosOwnIsReused(@TempDir Path dir) throws java.io.IOException {
+        Path mine = dir.resolve("mine");
+        Files.createDirectories(mine);
+        Files.writeString(mine.resolve("notes.txt"), "precious");
+        CliTest.Run refused = CliTest.run("demo", "--out-dir", mine.toString());
+        assertEquals(2, refused.code(), refused.err());
+        assertTrue(refused.err().contains("already holds files the demo did not make (notes.txt)"), refused.err());
+        assertEquals("precious", Files.readString(mine.resolve("notes.txt")));
+        try (var files = Files.list(mine)) {
+            assertEquals(1, files.count(), "nothing was added");
+        }
+        // The demo's own folder may be run into again.
+        Path ours = dir.resolve("ours");
+        assertEquals(0, CliTest.run("demo", "--out-dir", ours.toString()).code());
+        CliTest.Run again = CliTest.run("demo", "--out-dir", ours.toString());
+        assertEquals(0, again.code(), again.err());
+    }
 }
