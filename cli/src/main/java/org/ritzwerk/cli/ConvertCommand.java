@@ -1,10 +1,7 @@
 package org.ritzwerk.cli;
 
 import java.io.IOException;
-import java.io.Reader;
 import java.math.BigDecimal;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -14,7 +11,6 @@ import org.ritzwerk.quantity.Quantity;
 import org.ritzwerk.quantity.QuantityText;
 import org.ritzwerk.quantity.Target;
 import org.ritzwerk.quantity.Wavelength;
-import org.ritzwerk.refdata.DataFileException;
 import org.ritzwerk.refdata.QuantityListReader;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
@@ -116,14 +112,8 @@ final class ConvertCommand implements Callable<Integer> {
         return 0;
     }
 
-    private static List<QuantityListReader.Entry> readList(QuantityText text, Path file) throws IOException {
-        if (!Files.isRegularFile(file)) {
-            throw new DataFileException(DataFileException.UNREADABLE, file.toString(), List.of(),
-                    "no such file, or not a regular file");
-        }
-        try (Reader reader = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
-            return new QuantityListReader(text).read(reader, file.toString());
-        }
+    private static List<QuantityListReader.Entry> readList(QuantityText text, Path file) {
+        return new QuantityListReader(text).read(file);
     }
 
     private ObjectNode jsonOf(JsonMapper json, QuantityText text, String inputText, Quantity result, Target target) {

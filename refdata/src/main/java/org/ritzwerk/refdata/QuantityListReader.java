@@ -50,6 +50,18 @@ public final class QuantityListReader {
      * @return the entries in file order
      * @throws DataFileException with every problem, when any line is bad or the input too large
      */
+    /**
+     * Reads a list file: strict UTF-8 (a bad byte is reported with its line and column), at most
+     * {@link TabularFiles#MAX_BYTES} bytes; a folder or a missing file is refused naming the path.
+     *
+     * @param file the list file
+     * @return every entry, in file order
+     * @throws DataFileException with every problem found
+     */
+    public List<Entry> read(java.nio.file.Path file) {
+        return read(new java.io.StringReader(TabularFiles.read(file)), file.toString());
+    }
+
     public List<Entry> read(Reader input, String source) {
         BufferedReader lines = input instanceof BufferedReader ? (BufferedReader) input : new BufferedReader(input);
         List<Entry> entries = new ArrayList<>();

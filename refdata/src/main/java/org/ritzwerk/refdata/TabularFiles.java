@@ -3,7 +3,6 @@ package org.ritzwerk.refdata;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.StringWriter;
-import java.io.UncheckedIOException;
 import java.nio.ByteBuffer;
 import java.nio.charset.CharacterCodingException;
 import java.nio.charset.CodingErrorAction;
@@ -305,6 +304,10 @@ final class TabularFiles {
     /** @return the file's text, refusing files above the size limit or not in UTF-8 */
     static String read(Path file) {
         String name = file.toString();
+        if (Files.isDirectory(file)) {
+            throw new DataFileException(DataFileException.UNREADABLE, name, List.of(),
+                    "is a folder, not a file; give the file's path");
+        }
         try {
             long size = Files.size(file);
             if (size > MAX_BYTES) {
@@ -325,18 +328,31 @@ final class TabularFiles {
         try {
             bytes = in.readNBytes((int) Math.min(MAX_BYTES + 1, Integer.MAX_VALUE - 8));
         } catch (IOException e) {
-            throw new UncheckedIOException(source + ": " + e.getMessage(), e);
+            throw DataFileException.unreadable(source, e);
         }
         if (bytes.length > MAX_BYTES) {
             throw new DataFileException(DataFileException.TOO_LARGE, source, List.of(),
                     "more than " + MAX_BYTES + " bytes; split the file");
         }
+        ByteBuffer buffer = ByteBuffer.wrap(bytes);
         try {
             return StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
-                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(ByteBuffer.wrap(bytes)).toString();
+                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(buffer).toString();
         } catch (CharacterCodingException e) {
-            throw new DataFileException(DataFileException.INVALID, source,
-                    List.of(new DataProblem(source, 1, 0, "data.not-utf8", "the file is not valid UTF-8 text", "")), "");
+            // The decoder stops with the buffer at the first bad byte: name its line and column.
+            int at = Math.min(buffer.position(), bytes.length);
+            int line = 1;
+            int lineStart = 0;
+            for (int i = 0; i < at; i++) {
+                if (bytes[i] == '\n') {
+                    line++;
+                    lineStart = i + 1;
+                }
+            }
+            int column = new String(bytes, lineStart, at - lineStart, StandardCharsets.UTF_8).length() + 1;
+            throw new DataFileException(DataFileException.INVALID, source, List.of(new DataProblem(source, line, column,
+                    "data.not-utf8", String.format(Locale.ROOT, "byte 0x%02X is not valid UTF-8 text here",
+                            bytes[at] & 0xff), "")), "");
         }
     }
 

@@ -1,0 +1,40 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * A folder given where a file is expected, and a byte that is not UTF-8, are input errors: exit
+ * code 2 and one line naming the path (and the line and column of the byte), never an internal
+ * error.
+ */
+class InputErrorsTest {
+
+    @Test
+    void aFolderWhereAFileIsExpected(@TempDir Path dir) {
+        for (String[] args : new String[][] {
+            {"identify", dir.toString(), "--species", "H"},
+            {"data", "check", dir.toString()},
+            {"calibrate", dir.toString(), "--lamp", "Ne I"},
+            {"convert", "--input", dir.toString(), "--to", "THz"}}) {
+            CliTest.Run run = CliTest.run(args);
+            assertEquals(2, run.code(), String.join(" ", args) + ": " + run.err());
+            assertTrue(run.err().contains(dir.toString()) && !run.err().contains("internal error"), run.err());
+        }
+    }
+
+    @Test
+    void aByteThatIsNotUtf8(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("list.txt");
+        Files.write(file, new byte[] {'6', '5', '6', ' ', 'n', 'm', ' ', 'a', 'i', 'r', '\n', 'x', (byte) 0xff, '\n'});
+        CliTest.Run run = CliTest.run("convert", "--input", file.toString(), "--to", "THz");
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().contains(file + ":2:2") && run.err().contains("0xFF"), run.err());
+    }
+}
