@@ -1,6 +1,7 @@
 package org.ritzwerk.cli;
 
 import java.io.PrintWriter;
+import java.util.List;
 import picocli.CommandLine;
 
 /** Entry point of the {@code ritzwerk} command. */
@@ -30,9 +31,35 @@ public final class Main {
         commandLine.setOut(out);
         commandLine.setErr(err);
         commandLine.setExecutionExceptionHandler(new ErrorReporter());
+        commandLine.setParameterExceptionHandler(Main::usageError);
         int code = commandLine.execute(args);
         out.flush();
         err.flush();
         return code;
+    }
+
+    /**
+     * A mistyped command line: the one-line error, suggestions for a misspelt option or command,
+     * and where the help is; never the whole usage text. Exit code 2.
+     */
+    private static int usageError(CommandLine.ParameterException ex, String[] args) {
+        CommandLine cmd = ex.getCommandLine();
+        PrintWriter err = cmd.getErr();
+        err.println(cmd.getCommandSpec().qualifiedName() + ": " + ex.getMessage());
+        if (ex instanceof CommandLine.UnmatchedArgumentException unmatched) {
+            for (String arg : unmatched.getUnmatched()) {
+                if (arg.matches("-\\.?\\d.*")) {
+                    err.println("  '" + arg + "' starts with '-', which is read as an option; quantities are not"
+                            + " negative (wavelengths, wavenumbers, frequencies and energies are positive)");
+                }
+            }
+            List<String> suggestions = unmatched.getSuggestions();
+            if (!suggestions.isEmpty()) {
+                err.println("  did you mean: " + String.join(", ", suggestions) + "?");
+            }
+        }
+        err.println("  see '" + cmd.getCommandSpec().qualifiedName() + " --help'");
+        err.flush();
+        return ErrorReporter.BAD_INPUT;
     }
 }

@@ -37,4 +37,19 @@ class InputErrorsTest {
         assertEquals(2, run.code(), run.err());
         assertTrue(run.err().contains(file + ":2:2") && run.err().contains("0xFF"), run.err());
     }
+
+    @Test
+    void aMistypedCommandLineGivesOneErrorAHintAndNoUsageDump() {
+        CliTest.Run typo = CliTest.run("lines", "--specis", "H");
+        assertEquals(2, typo.code());
+        assertTrue(typo.err().contains("did you mean: --species?"), typo.err());
+        assertTrue(typo.err().contains("see 'ritzwerk lines --help'") && !typo.err().contains("Usage:"), typo.err());
+        assertTrue(typo.err().lines().count() <= 4, typo.err());
+        CliTest.Run negative = CliTest.run("convert", "-656 nm", "--to", "THz");
+        assertEquals(2, negative.code());
+        assertTrue(negative.err().contains("starts with '-'") && !negative.err().contains("Usage:"), negative.err());
+        CliTest.Run command = CliTest.run("convret");
+        assertEquals(2, command.code());
+        assertTrue(command.err().contains("did you mean: convert?"), command.err());
+    }
 }
