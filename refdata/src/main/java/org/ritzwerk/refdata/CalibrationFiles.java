@@ -146,6 +146,7 @@ public final class CalibrationFiles {
     }
 
     static Calibration parse(String source, String text) {
+        text = TabularFiles.withoutByteOrderMark(text);
         JsonNode root;
         try {
             root = JsonMapper.builder().enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).build().readTree(text);

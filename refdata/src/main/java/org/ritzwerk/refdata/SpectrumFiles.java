@@ -1,7 +1,6 @@
 package org.ritzwerk.refdata;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -125,13 +124,14 @@ public final class SpectrumFiles {
      * @throws DataFileException listing every problem, or when the file cannot be read
      */
     public static Spectrum read(Path file) {
-        String text;
+        TabularFiles.refuseFolder(file);
+        byte[] bytes;
         try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
+            bytes = Files.readAllBytes(file);
         } catch (IOException e) {
             throw DataFileException.unreadable(file.toString(), e);
         }
-        return read(text, file.toString());
+        return read(TabularFiles.decodeStrict(bytes, file.toString()), file.toString());
     }
 
     /**
@@ -141,7 +141,8 @@ public final class SpectrumFiles {
      * @throws DataFileException listing every problem
      */
     public static Spectrum read(String text, String source) {
-        return text.stripLeading().startsWith("{") ? json(source, text) : csv(source, text);
+        String body = TabularFiles.withoutByteOrderMark(text);
+        return body.stripLeading().startsWith("{") ? json(source, body) : csv(source, body);
     }
 
     /**

@@ -304,10 +304,7 @@ final class TabularFiles {
     /** @return the file's text, refusing files above the size limit or not in UTF-8 */
     static String read(Path file) {
         String name = file.toString();
-        if (Files.isDirectory(file)) {
-            throw new DataFileException(DataFileException.UNREADABLE, name, List.of(),
-                    "is a folder, not a file; give the file's path");
-        }
+        refuseFolder(file);
         try {
             long size = Files.size(file);
             if (size > MAX_BYTES) {
@@ -319,6 +316,14 @@ final class TabularFiles {
             }
         } catch (IOException e) {
             throw DataFileException.unreadable(name, e);
+        }
+    }
+
+    /** @throws DataFileException when the path is a folder, naming it */
+    static void refuseFolder(Path file) {
+        if (Files.isDirectory(file)) {
+            throw new DataFileException(DataFileException.UNREADABLE, file.toString(), List.of(),
+                    "is a folder, not a file; give the file's path");
         }
     }
 
@@ -334,10 +339,20 @@ final class TabularFiles {
             throw new DataFileException(DataFileException.TOO_LARGE, source, List.of(),
                     "more than " + MAX_BYTES + " bytes; split the file");
         }
+        return decodeStrict(bytes, source);
+    }
+
+    /**
+     * @param bytes  a file's bytes
+     * @param source the file's name, for messages
+     * @return the text (UTF-8, a leading byte-order mark removed)
+     * @throws DataFileException naming the line and column of the first byte that is not UTF-8
+     */
+    static String decodeStrict(byte[] bytes, String source) {
         ByteBuffer buffer = ByteBuffer.wrap(bytes);
         try {
-            return StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
-                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(buffer).toString();
+            return withoutByteOrderMark(StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(buffer).toString());
         } catch (CharacterCodingException e) {
             // The decoder stops with the buffer at the first bad byte: name its line and column.
             int at = Math.min(buffer.position(), bytes.length);
@@ -354,6 +369,15 @@ final class TabularFiles {
                     "data.not-utf8", String.format(Locale.ROOT, "byte 0x%02X is not valid UTF-8 text here",
                             bytes[at] & 0xff), "")), "");
         }
+    }
+
+    /**
+     * @param text a file's text
+     * @return the text without a leading UTF-8 byte-order mark (U+FEFF), which some editors write
+     *         and which is invisible; accepted, not reported
+     */
+    static String withoutByteOrderMark(String text) {
+        return text.startsWith("\uFEFF") ? text.substring(1) : text;
     }
 
     /** @return whether to read as JSON: by extension, else by a leading '{' */

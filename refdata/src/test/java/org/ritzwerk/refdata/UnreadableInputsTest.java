@@ -46,4 +46,20 @@ class UnreadableInputsTest {
         assertEquals(1, f.problems().get(0).line());
         assertEquals(4, f.problems().get(0).column());
     }
+
+    @Test
+    void aByteOrderMarkIsAccepted(@TempDir Path dir) throws IOException {
+        String bom = "\uFEFF";
+        Path list = dir.resolve("list.txt");
+        Files.writeString(list, bom + "656.28 nm air\n", java.nio.charset.StandardCharsets.UTF_8);
+        assertEquals(1, new QuantityListReader(QuantityText.standard()).read(list).size());
+        Path lines = dir.resolve("lines.csv");
+        Files.writeString(lines, bom + "# ritzwerk-lines 1\n# id: x\n# title: t\n# source: s\n# provenance: measured\n"
+                + "# version: 1\n# position-unit: nm\n# medium: air\nspecies,position\nNe I,640.2248\n",
+                java.nio.charset.StandardCharsets.UTF_8);
+        assertEquals(1, LineListFiles.read(lines, DataKind.LINES).size());
+        Path spectrum = dir.resolve("s.csv");
+        Files.writeString(spectrum, bom + "# ritzwerk-spectrum 1\ncounts\n1\n2\n", java.nio.charset.StandardCharsets.UTF_8);
+        assertEquals(2, SpectrumFiles.read(spectrum).pixels());
+    }
 }
