@@ -52,7 +52,7 @@ final class Plots {
      */
     static void lineChart(OutputFiles.Batch batch, Path file, String title, String xTitle, String yTitle, double[] x, double[] y,
             List<Label> labels) throws IOException {
-        System.setProperty("java.awt.headless", "true");
+        headless();
         XYSeries series = new XYSeries(yTitle, false, true);
         // A chart cannot show more points than it has pixels; keep each bin's extremes.
         int bins = Math.min(x.length, 4000);
@@ -134,7 +134,7 @@ final class Plots {
      */
     static void residuals(OutputFiles.Batch batch, Path file, String title, String xTitle, String yTitle,
             List<double[]> used, List<double[]> rejected) throws IOException {
-        System.setProperty("java.awt.headless", "true");
+        headless();
         YIntervalSeriesCollection data = new YIntervalSeriesCollection();
         YIntervalSeries usedSeries = new YIntervalSeries("used");
         for (double[] p : used) {
@@ -199,5 +199,14 @@ final class Plots {
             return x.length - 1;
         }
         return at - x[i - 1] < x[i] - at ? i - 1 : i;
+    }
+
+    /**
+     * Headless drawing, and PNGs encoded in memory: without ImageIO's file cache no background
+     * thread is left to fail (with a stack trace) after a write error such as a full disk.
+     */
+    private static void headless() {
+        System.setProperty("java.awt.headless", "true");
+        javax.imageio.ImageIO.setUseCache(false);
     }
 }

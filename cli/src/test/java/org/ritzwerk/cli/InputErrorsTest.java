@@ -52,4 +52,17 @@ class InputErrorsTest {
         assertEquals(2, command.code());
         assertTrue(command.err().contains("did you mean: convert?"), command.err());
     }
+
+    @Test
+    void aFullDeviceIsAnInputErrorWithoutAStackTrace(@TempDir Path dir) {
+        Path full = Path.of("/dev/full");
+        org.junit.jupiter.api.Assumptions.assumeTrue(Files.exists(full) && !Files.isRegularFile(full),
+                "a system with /dev/full");
+        CliTest.Run run = CliTest.run("synth", "--lines", "lamp-ne-i", "--from", "600 nm air", "--to", "700 nm air",
+                "--pixels", "2000", "--medium", "air", "--temperature", "300", "--resolving-power", "4000",
+                "--seed", "1", "--out", dir.resolve("s.csv").toString(), "--plot", full.toString());
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().contains("No space left") && !run.err().contains("Exception"), run.err());
+        assertTrue(!Files.isRegularFile(full), "/dev/full is still a device");
+    }
 }

@@ -127,6 +127,14 @@ public final class OutputFiles {
          * @throws IllegalArgumentException when the batch already holds this target
          */
         public void bytes(Path file, ByteContent content) throws IOException {
+            if (isSpecial(file)) {
+                // A device, pipe or socket (/dev/stdout, a named pipe): nothing there to lose and
+                // nothing to rename over; write straight into it.
+                try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(file), 1 << 16)) {
+                    content.writeTo(out);
+                }
+                return;
+            }
             Path target = target(file);
             if (staged.containsKey(target)) {
                 throw new IllegalArgumentException("two outputs name the same file: " + file);
@@ -255,6 +263,11 @@ public final class OutputFiles {
         } catch (IOException | InvalidPathException e) {
             return file.toAbsolutePath().normalize();
         }
+    }
+
+    /** @return whether the path exists and is neither a regular file nor a folder (following links) */
+    private static boolean isSpecial(Path file) {
+        return Files.exists(file) && !Files.isRegularFile(file) && !Files.isDirectory(file);
     }
 
     /** @return where the content goes: the file a link points to, else the absolute path */

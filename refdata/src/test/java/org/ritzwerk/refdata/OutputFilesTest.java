@@ -1,6 +1,7 @@
 package org.ritzwerk.refdata;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -119,6 +120,17 @@ class OutputFilesTest {
                 List.of(new OutputFiles.Named("--lines", folder.resolve("absent.csv"))));
         try (var files = Files.list(folder)) {
             assertEquals(1, files.count(), "the probe file is removed");
+        }
+    }
+
+    @Test
+    void aDeviceIsWrittenIntoNotReplaced() throws IOException {
+        Path devNull = Path.of("/dev/null");
+        org.junit.jupiter.api.Assumptions.assumeTrue(Files.exists(devNull), "a system with /dev/null");
+        OutputFiles.writeString(devNull, "discarded");
+        assertFalse(Files.isRegularFile(devNull), "/dev/null is still a device, not a file put in its place");
+        try (var files = Files.list(Path.of("/dev"))) {
+            assertTrue(files.noneMatch(f -> f.getFileName().toString().startsWith(".null.")), "no temporary file");
         }
     }
 }
