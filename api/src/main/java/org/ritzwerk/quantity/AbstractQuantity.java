@@ -17,6 +17,14 @@ abstract class AbstractQuantity {
     final double u;
 
     AbstractQuantity(double si, double u) {
+        if (Double.isInfinite(u)) {
+            // Only a conversion can get here (factories refuse infinite uncertainties): first-order
+            // propagation of a huge uncertainty through a steep conversion overflowed.
+            throw new ConversionException(ConversionException.UNCERTAINTY_OVERFLOW, "the standard uncertainty is "
+                    + "too large to convert: it becomes infinite for the " + getClass().getSimpleName().toLowerCase(
+                            java.util.Locale.ROOT) + " " + DecimalText.significant(displayUnit().fromSi(si), 6) + " "
+                    + displayUnit().symbol() + "; give a smaller uncertainty");
+        }
         this.si = si;
         this.u = u;
     }

@@ -10,6 +10,8 @@ public final class ConversionException extends RitzwerkException {
     public static final String NOT_A_PHOTON = "quantity.not-a-photon";
     /** Code: the two kinds do not convert into each other (e.g. a temperature to a wavelength). */
     public static final String INCOMPATIBLE = "quantity.incompatible-kinds";
+    /** Code: a converted standard uncertainty is too large for a double (it would be infinite). */
+    public static final String UNCERTAINTY_OVERFLOW = "quantity.uncertainty-overflow";
 
     /**
      * @param code    one of the codes above
