@@ -143,7 +143,11 @@ final class IdentifyCommand implements Callable<Integer> {
         double[] sigmas = read.allUncertain() ? read.uncertainties() : null;
         PeakList peaks = PeakList.of(read.positions(), sigmas, read.allIntense() ? read.intensities() : null,
                 read.unit(), read.medium());
-        IdentificationSearch search = IdentificationSearch.of(Identifier.of(tolerance(read.allUncertain())));
+        Tolerance tol = tolerance(read.allUncertain());
+        if (tol.kind() == Tolerance.Kind.K_SIGMA) {
+            refuseZeroUncertainties(read, peaksFile);
+        }
+        IdentificationSearch search = IdentificationSearch.of(Identifier.of(tol));
         if (searchVelocity != null) {
             search = search.withVelocitySearch(searchVelocity * 1e3);
         }
@@ -173,6 +177,20 @@ final class IdentifyCommand implements Callable<Integer> {
             return Tolerance.parse(tolerance);
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException("--tolerance: " + e.getMessage(), e);
+        }
+    }
+
+    /**
+     * Under a k-sigma tolerance a peak that states an uncertainty of 0 could only match a line of
+     * uncertainty 0 exactly: refuse it, naming the file line, instead of leaving it unexplained.
+     */
+    private static void refuseZeroUncertainties(PeakFiles.Peaks read, Path file) {
+        for (int i = 0; i < read.size(); i++) {
+            if (read.uncertainties()[i] == 0) {
+                throw new IllegalArgumentException(file + ":" + read.lines()[i] + ": the peak's uncertainty"
+                        + " is 0, which can never match under a sigma tolerance; give its standard uncertainty, leave"
+                        + " it empty and use a width tolerance such as --tolerance \"0.02 nm\"");
+            }
         }
     }
 

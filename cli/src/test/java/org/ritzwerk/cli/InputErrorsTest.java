@@ -65,4 +65,16 @@ class InputErrorsTest {
         assertTrue(run.err().contains("No space left") && !run.err().contains("Exception"), run.err());
         assertTrue(!Files.isRegularFile(full), "/dev/full is still a device");
     }
+
+    @Test
+    void aZeroUncertaintyUnderASigmaToleranceIsExplained(@TempDir Path dir) throws IOException {
+        Path peaks = dir.resolve("zero.csv");
+        Files.writeString(peaks, "# ritzwerk-peaks 1\n# id: zero\n# title: t\n# source: invented\n# provenance: measured\n"
+                + "# version: 1\n# position-unit: nm\n# medium: air\nposition,uncertainty\n656.28,0.004\n486.13,0\n");
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H");
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().contains(peaks + ":11:") && run.err().contains("uncertainty is 0"), run.err());
+        // With a width tolerance the same file is fine.
+        assertEquals(0, CliTest.run("identify", peaks.toString(), "--species", "H", "--tolerance", "0.02 nm").code());
+    }
 }
