@@ -17,12 +17,13 @@ class RepositorySourceGuardTest {
     private static final RepositorySourceGuard GUARD = new RepositorySourceGuard(Set.of("api", "engine", "refdata"));
     private static final String C_WORD = "com" + "mit";
     private static final String HOST = "git" + "hub.com";
-    private static final String FULL_ID = "8c04bb59fd275ae68fee329c7ceb1dee" + "93206c60";
+    /** An invented 40-digit hex id. */
+    private static final String FULL_ID = "0123456789abcdef0123456789abcdef" + "fedcba98";
 
     @Test
     void flagsCommitsNamedAsSources() {
-        flagged("values read in the copy at " + C_WORD + " 8c04bb5", "commit named as a source");
-        flagged("read in levels.ascii at " + C_WORD + " " + FULL_ID + " (in eV)", "commit named as a source");
+        flagged("values taken from a copy at " + C_WORD + " 0f1e2d3", "commit named as a source");
+        flagged("taken from table.txt at " + C_WORD + " " + FULL_ID + " (invented)", "commit named as a source");
         flagged("copied at the " + C_WORD + ": 1a2b3c4d", "commit named as a source");
         flagged("transcribed from table.csv (" + C_WORD + " " + FULL_ID + ")", "commit id");
         flagged(C_WORD + "=" + FULL_ID.toUpperCase(), "commit id");
@@ -49,7 +50,7 @@ class RepositorySourceGuardTest {
 
     @Test
     void passesChecksumsDoisPathsAndProse() {
-        clean("specutils source file sha256 383d0fedbfb63c5aec176d511e055fd69c4d1db4039106fd5e4371206279313d");
+        clean("a library file's sha256 " + FULL_ID + FULL_ID.substring(0, 24) + " (64 hex digits, invented)");
         clean("sha1 of the Debian file: " + FULL_ID);
         clean("E. Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2021), doi:10.1103/RevModPhys.93.025010");
         clean("https://doi.org/10.1088/1674-1137/abddaf (AME2020, Chin. Phys. C 45, 030003)");
