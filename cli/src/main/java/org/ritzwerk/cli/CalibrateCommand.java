@@ -173,23 +173,10 @@ final class CalibrateCommand implements Callable<Integer> {
      * folder is missing or cannot be written.
      */
     private void checkOutputs() {
-        List<OutputFiles.Named> inputs = new ArrayList<>();
+        List<OutputFiles.Named> inputs = data.inputs(lineSets);
         inputs.add(new OutputFiles.Named("SPECTRUM_FILE", spectrumFile));
         inputs.add(new OutputFiles.Named("--apply", apply));
-        for (String set : lineSets) {
-            try {
-                inputs.add(new OutputFiles.Named("--lines", Path.of(set)));
-            } catch (java.nio.file.InvalidPathException e) {
-                // a data set id, not a file
-            }
-        }
-        for (Path file : data.files) {
-            inputs.add(new OutputFiles.Named("--data", file));
-        }
-        List<OutputFiles.Named> outputs = new ArrayList<>();
-        outputs.add(new OutputFiles.Named("--out", out));
-        outputs.add(new OutputFiles.Named("--plot", plot));
-        OutputFiles.check(outputs, inputs);
+        OutputFiles.check(List.of(new OutputFiles.Named("--out", out), new OutputFiles.Named("--plot", plot)), inputs);
     }
 
     private Calibrator calibrator() {

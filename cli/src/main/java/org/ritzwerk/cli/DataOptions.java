@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.OutputFiles;
 import picocli.CommandLine.Option;
 
 /**
@@ -40,5 +41,28 @@ final class DataOptions {
             context = context.withUserFile(file);
         }
         return context;
+    }
+
+    /**
+     * The files a command reads besides its own positional ones, for the output checks: every
+     * {@code --lines} value that is a path (an id such as {@code lamp-ne-i} is not) and every
+     * {@code --data} file.
+     *
+     * @param lineSets the command's --lines values
+     * @return the inputs, named by their options
+     */
+    List<OutputFiles.Named> inputs(List<String> lineSets) {
+        List<OutputFiles.Named> inputs = new ArrayList<>();
+        for (String set : lineSets) {
+            try {
+                inputs.add(new OutputFiles.Named("--lines", Path.of(set)));
+            } catch (java.nio.file.InvalidPathException e) {
+                // a data set id, not a file
+            }
+        }
+        for (Path file : files) {
+            inputs.add(new OutputFiles.Named("--data", file));
+        }
+        return inputs;
     }
 }

@@ -2,9 +2,6 @@ package org.ritzwerk.cli;
 
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.LineList;
-import org.ritzwerk.engine.convert.SpectralArrays;
-import org.ritzwerk.medium.Medium;
-import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.DataContext;
 
 /** The line lists that --lines (and --lamp) name: a user's file or a data set id. */
@@ -27,21 +24,5 @@ final class LineSets {
                     + " set, not a line list");
         }
         return (LineList) data;
-    }
-
-    /**
-     * @param list   a line list
-     * @param unit   the wavelength unit wanted
-     * @param medium the medium wanted
-     * @return every line's position as a wavelength in that unit and medium
-     */
-    static double[] wavelengths(LineList list, Unit unit, Medium medium) {
-        double[] positions = new double[list.size()];
-        for (int i = 0; i < list.size(); i++) {
-            positions[i] = list.position(i);
-        }
-        double[] converted = new double[list.size()];
-        SpectralArrays.convert(positions, list.unit(), list.medium(), unit, medium, converted);
-        return converted;
     }
 }

@@ -402,18 +402,8 @@ final class SynthCommand implements Callable<Integer> {
      * folder is missing or cannot be written.
      */
     private void checkOutputs() {
-        List<OutputFiles.Named> inputs = new ArrayList<>();
+        List<OutputFiles.Named> inputs = data.inputs(lineSets);
         inputs.add(new OutputFiles.Named("--continuum-file", continuumFile));
-        for (String set : lineSets) {
-            try {
-                inputs.add(new OutputFiles.Named("--lines", Path.of(set)));
-            } catch (java.nio.file.InvalidPathException e) {
-                // a data set id, not a file
-            }
-        }
-        for (Path file : data.files) {
-            inputs.add(new OutputFiles.Named("--data", file));
-        }
         OutputFiles.check(List.of(new OutputFiles.Named("--out", out), new OutputFiles.Named("--truth", truth),
                 new OutputFiles.Named("--plot", plot)), inputs);
     }

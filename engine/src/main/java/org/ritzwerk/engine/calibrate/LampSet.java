@@ -61,24 +61,16 @@ public final class LampSet {
         int k = 0;
         for (LineList list : lists) {
             ids.add(list.info().id());
-            double[] positions = new double[list.size()];
-            for (int i = 0; i < positions.length; i++) {
-                positions[i] = list.position(i);
-            }
-            double[] converted = new double[positions.length];
-            try {
-                SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.NANOMETRE, medium, converted);
-            } catch (IllegalArgumentException e) {
-                throw new IllegalArgumentException("lamp set " + list.info().id() + ": " + e.getMessage(), e);
-            }
-            for (int i = 0; i < positions.length; i++, k++) {
+            double[] converted = SpectralArrays.wavelengths(list, Unit.NANOMETRE, medium);
+            for (int i = 0; i < converted.length; i++, k++) {
+                double listed = list.position(i);
                 nm[k] = converted[i];
                 intensity[k] = list.intensity(i).orElse(1);
                 double u = list.uncertainty(i).orElse(Double.NaN);
                 allSigmas &= !Double.isNaN(u);
-                sigma[k] = Math.abs(converted[i] / positions[i]) * u;
+                sigma[k] = Math.abs(converted[i] / listed) * u;
                 species[k] = list.species(i);
-                labels.add(list.species(i).notation() + " " + positions[i] + " " + list.unit().symbol()
+                labels.add(list.species(i).notation() + " " + listed + " " + list.unit().symbol()
                         + (list.medium() == null ? "" : " " + list.medium().label()));
             }
         }

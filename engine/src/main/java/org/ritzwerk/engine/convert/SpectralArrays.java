@@ -2,6 +2,7 @@ package org.ritzwerk.engine.convert;
 
 import java.util.Objects;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.LineList;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
 import org.ritzwerk.quantity.Kind;
@@ -25,6 +26,29 @@ import org.ritzwerk.quantity.Unit;
 public final class SpectralArrays {
 
     private SpectralArrays() {
+    }
+
+    /**
+     * The positions of a line list (in its own unit and medium) as wavelengths in one unit and
+     * medium, by {@link #convert}.
+     *
+     * @param list   a line list
+     * @param unit   the wavelength unit wanted
+     * @param medium the medium wanted
+     * @return one wavelength per line, in list order
+     * @throws IllegalArgumentException naming the list's id and the element that cannot be converted
+     */
+    public static double[] wavelengths(LineList list, Unit unit, Medium medium) {
+        double[] positions = new double[list.size()];
+        for (int i = 0; i < positions.length; i++) {
+            positions[i] = list.position(i);
+        }
+        try {
+            convert(positions, list.unit(), list.medium(), unit, medium, positions);
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException("line list " + list.info().id() + ": " + e.getMessage(), e);
+        }
+        return positions;
     }
 
     /**

@@ -222,16 +222,7 @@ public final class Candidates {
         }
 
         private void addLineList(LineCatalog.Builder b, LineList list) {
-            double[] positions = new double[list.size()];
-            for (int i = 0; i < positions.length; i++) {
-                positions[i] = list.position(i);
-            }
-            double[] vacuum = new double[positions.length];
-            try {
-                SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.METRE, Medium.vacuum(), vacuum);
-            } catch (IllegalArgumentException e) {
-                throw new IllegalArgumentException("line list " + list.info().id() + ": " + e.getMessage(), e);
-            }
+            double[] vacuum = SpectralArrays.wavelengths(list, Unit.METRE, Medium.vacuum());
             for (int i = 0; i < list.size(); i++) {
                 if (vacuum[i] < lo || vacuum[i] > hi) {
                     continue;

@@ -630,12 +630,7 @@ public final class Scene {
 
         private List<ListEmitter> relativeLines(RelativeList r, double ionScale) {
             LineList list = r.list();
-            double[] positions = new double[list.size()];
-            for (int i = 0; i < positions.length; i++) {
-                positions[i] = list.position(i);
-            }
-            double[] vacuum = new double[positions.length];
-            SpectralArrays.convert(positions, list.unit(), list.medium(), Unit.NANOMETRE, Medium.vacuum(), vacuum);
+            double[] vacuum = SpectralArrays.wavelengths(list, Unit.NANOMETRE, Medium.vacuum());
             double strongest = 0;
             for (int i = 0; i < list.size(); i++) {
                 strongest = Math.max(strongest, list.intensity(i).orElse(0));
