@@ -65,11 +65,12 @@ public final class CalibrationProblem {
         return source;
     }
 
-    /** Counts the raw access without copying, for the solver. */
+    /** The counts without a copy, for the solver in this package (which only reads them). */
     double[] countsView() {
         return counts;
     }
 
+    /** The count uncertainties without a copy (null when not given), for the solver. */
     double[] sigmasView() {
         return sigmas;
     }
