@@ -14,9 +14,9 @@ import org.ritzwerk.RitzwerkException;
 public final class CalibrationException extends RitzwerkException {
     private static final long serialVersionUID = 1L;
 
-    /** Code: fewer peaks than a solution needs (at least 4). */
+    /** Code: fewer peaks than a solution needs (at least 4; 3 for a three-line lamp). */
     public static final String TOO_FEW_PEAKS = "calibrate.too-few-peaks";
-    /** Code: fewer lamp lines within the prior's wavelength range than a solution needs (at least 4). */
+    /** Code: fewer lamp lines within the prior's wavelength range than a solution needs (at least 3). */
     public static final String TOO_FEW_LINES = "calibrate.too-few-lines";
     /** Code: the best pairing matched fewer than 4 peaks to lines. */
     public static final String TOO_FEW_MATCHES = "calibrate.too-few-matches";
@@ -24,6 +24,11 @@ public final class CalibrationException extends RitzwerkException {
     public static final String OUTSIDE_PRIOR = "calibrate.outside-prior";
     /** Code: no solution, within the prior or outside it, explains enough of the strongest peaks. */
     public static final String LAMP_MISMATCH = "calibrate.lamp-mismatch";
+    /**
+     * Code: the fitted solution is not plausible: its wavelength does not run one way across the
+     * detector, or its reduced chi-square is above the accepted limit (figures in the message).
+     */
+    public static final String IMPLAUSIBLE_FIT = "calibrate.implausible-fit";
 
     /**
      * @param code    one of the codes above

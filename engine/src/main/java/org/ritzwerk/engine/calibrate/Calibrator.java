@@ -1,5 +1,6 @@
 package org.ritzwerk.engine.calibrate;
 
+import java.util.Locale;
 import java.util.Objects;
 
 /**
@@ -26,6 +27,12 @@ public final class Calibrator {
     public static final double DEFAULT_MIN_MATCHED = 0.6;
     /** Default highest degree of the automatically chosen polynomial. */
     public static final int DEFAULT_MAX_DEGREE = 3;
+    /**
+     * Default largest reduced chi-square of the final fit that is accepted. In seeded sweeps of
+     * curved, blended, contaminated lamp spectra (refdata's CalibrationSweepTest) right solutions
+     * gave at most 7 and wrong pairings that slipped past the matcher 68 and more.
+     */
+    public static final double DEFAULT_MAX_REDUCED_CHI_SQUARE = 25;
 
     private final double threshold;
     private final double saturation;
@@ -35,9 +42,10 @@ public final class Calibrator {
     private final double clip;
     private final int degree;
     private final int maxDegree;
+    private final double maxChi2;
 
     private Calibrator(double threshold, double saturation, boolean negativeCountsAllowed, double tolerance,
-            double minMatched, double clip, int degree, int maxDegree) {
+            double minMatched, double clip, int degree, int maxDegree, double maxChi2) {
         this.threshold = threshold;
         this.saturation = saturation;
         this.negativeCountsAllowed = negativeCountsAllowed;
@@ -46,6 +54,7 @@ public final class Calibrator {
         this.clip = clip;
         this.degree = degree;
         this.maxDegree = maxDegree;
+        this.maxChi2 = maxChi2;
     }
 
     /**
@@ -57,7 +66,7 @@ public final class Calibrator {
      */
     public static Calibrator defaults() {
         return new Calibrator(PeakFinder.DEFAULT_THRESHOLD, Double.NaN, true, DEFAULT_TOLERANCE, DEFAULT_MIN_MATCHED,
-                DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE);
+                DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE, DEFAULT_MAX_REDUCED_CHI_SQUARE);
     }
 
     /**
@@ -66,7 +75,7 @@ public final class Calibrator {
      */
     public Calibrator withThreshold(double snr) {
         PeakFinder.defaults().withThreshold(snr); // validates
-        return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree, maxDegree);
+        return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree, maxDegree, maxChi2);
     }
 
     /**
@@ -76,7 +85,7 @@ public final class Calibrator {
      */
     public Calibrator withSaturationLevel(double counts) {
         PeakFinder.defaults().withSaturationLevel(counts); // validates
-        return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree, maxDegree);
+        return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree, maxDegree, maxChi2);
     }
 
     /**
@@ -84,7 +93,7 @@ public final class Calibrator {
      * @return a solver with that setting
      */
     public Calibrator withNegativeCountsAllowed(boolean allowed) {
-        return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree, maxDegree);
+        return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree, maxDegree, maxChi2);
     }
 
     /**
@@ -93,7 +102,7 @@ public final class Calibrator {
      */
     public Calibrator withTolerance(double pixels) {
         LampMatcher.defaults().withTolerance(pixels); // validates
-        return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree, maxDegree);
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree, maxDegree, maxChi2);
     }
 
     /**
@@ -103,7 +112,7 @@ public final class Calibrator {
      */
     public Calibrator withMinMatchedFraction(double fraction) {
         LampMatcher.defaults().withMinInlierFraction(fraction); // validates
-        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree, maxDegree);
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree, maxDegree, maxChi2);
     }
 
     /**
@@ -112,7 +121,7 @@ public final class Calibrator {
      */
     public Calibrator withClipping(double k) {
         DispersionFit.automatic(1).withClipping(k, DispersionFit.DEFAULT_CLIP_ITERATIONS); // validates
-        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree, maxDegree);
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree, maxDegree, maxChi2);
     }
 
     /**
@@ -122,7 +131,7 @@ public final class Calibrator {
     public Calibrator withDegree(int fixedDegree) {
         DispersionFit.ofDegree(fixedDegree); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, fixedDegree,
-                maxDegree);
+                maxDegree, maxChi2);
     }
 
     /**
@@ -131,7 +140,27 @@ public final class Calibrator {
      */
     public Calibrator withAutomaticDegree(int highest) {
         DispersionFit.automatic(highest); // validates
-        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest);
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest, maxChi2);
+    }
+
+    /**
+     * @param limit the largest reduced chi-square of the final fit (residuals against the stated
+     *              centroid and line uncertainties) that is accepted, finite and &gt;= 1; a
+     *              larger value means pairs the polynomial cannot explain, usually a wrong pairing
+     * @return a solver with that limit
+     */
+    public Calibrator withMaxReducedChiSquare(double limit) {
+        if (!(limit >= 1) || Double.isInfinite(limit)) {
+            throw new IllegalArgumentException("the largest accepted reduced chi-square must be finite and >= 1, got "
+                    + limit);
+        }
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, limit);
+    }
+
+    /** @return the largest accepted reduced chi-square of the final fit */
+    public double maxReducedChiSquare() {
+        return maxChi2;
     }
 
     /** @return the S/N threshold */
@@ -199,7 +228,37 @@ public final class Calibrator {
         DispersionFit fit = fit();
         LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, lamp.lines(),
                 lamp.speciesArray(), tolerance);
-        return new Calibration(problem, this, peaks, first, refined, refined.fit(fit));
+        DispersionSolution solution = refined.fit(fit);
+        checkPlausible(problem, solution);
+        return new Calibration(problem, this, peaks, first, refined, solution);
+    }
+
+    /**
+     * Refuses a fitted solution whose wavelength does not run one way across the detector, or
+     * whose reduced chi-square exceeds the limit.
+     */
+    private void checkPlausible(CalibrationProblem problem, DispersionSolution solution) {
+        int pixels = problem.pixels();
+        double first = solution.dispersionAt(0);
+        for (int s = 0; s <= 64; s++) {
+            double p = (pixels - 1) * s / 64.0;
+            double d = solution.dispersionAt(p);
+            if (!(d * first > 0)) {
+                throw new CalibrationException(CalibrationException.IMPLAUSIBLE_FIT, String.format(Locale.ROOT,
+                        "%s: the fitted degree-%d solution does not run one way across the detector (its dispersion "
+                                + "changes sign near pixel %.0f); the pairing is not trustworthy. Give a prior "
+                                + "(range and dispersion) or a lower degree", problem.source(), solution.degree(), p));
+            }
+        }
+        double chi2 = solution.reducedChiSquare();
+        if (chi2 > maxChi2) {
+            throw new CalibrationException(CalibrationException.IMPLAUSIBLE_FIT, String.format(Locale.ROOT,
+                    "%s: the fitted solution's reduced chi-square is %.3g (%d pairs, RMS %.3g pixels), above the "
+                            + "accepted %.3g: the pairs disagree with any smooth dispersion by far more than their "
+                            + "uncertainties, which means a wrong pairing or a wrong lamp list. Give a prior, or raise "
+                            + "the limit only if the centroid uncertainties are known to be too small",
+                    problem.source(), chi2, solution.usedCount(), solution.rmsPixels(), maxChi2));
+        }
     }
 
     /** @return the dispersion fit these settings make */
@@ -212,6 +271,7 @@ public final class Calibrator {
     public String toString() {
         return "Calibrator[threshold=" + threshold + ", saturation=" + saturation + ", tolerance=" + tolerance
                 + " px, minMatched=" + minMatched + ", clip=" + clip + ", degree="
-                + (degree > 0 ? Integer.toString(degree) : "auto<=" + maxDegree) + "]";
+                + (degree > 0 ? Integer.toString(degree) : "auto<=" + maxDegree) + ", maxReducedChiSquare=" + maxChi2
+                + "]";
     }
 }

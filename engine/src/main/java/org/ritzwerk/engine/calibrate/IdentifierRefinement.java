@@ -99,6 +99,6 @@ public final class IdentifierRefinement {
         return new LampMatch(peakIndex, lineIndex, pixel, pixelSigma, wavelength, wavelengthSigma,
                 lines.sigmasGiven(), residual, match.strongPeaks(), match.strongMatched(), match.degree(),
                 match.hypotheses(), solution.wavelengthAt(0), solution.wavelengthAt(peaks.pixels() - 1),
-                lines.medium());
+                lines.medium(), match.chanceMatches(), match.chanceProbability(), match.distinctHypotheses());
     }
 }

@@ -26,11 +26,14 @@ public final class LampMatch {
     private final double firstWavelength;
     private final double lastWavelength;
     private final Medium medium;
+    private final double chanceMatches;
+    private final double chanceProbability;
+    private final int distinctHypotheses;
 
     LampMatch(int[] peakIndex, int[] lineIndex, double[] pixel, double[] pixelSigma, double[] wavelength,
             double[] wavelengthSigma, boolean lineSigmasGiven, double[] residualPixels, int strongPeaks,
             int strongMatched, int degree, long hypotheses, double firstWavelength, double lastWavelength,
-            Medium medium) {
+            Medium medium, double chanceMatches, double chanceProbability, int distinctHypotheses) {
         this.peakIndex = peakIndex;
         this.lineIndex = lineIndex;
         this.pixel = pixel;
@@ -46,6 +49,30 @@ public final class LampMatch {
         this.firstWavelength = firstWavelength;
         this.lastWavelength = lastWavelength;
         this.medium = medium;
+        this.chanceMatches = chanceMatches;
+        this.chanceProbability = chanceProbability;
+        this.distinctHypotheses = distinctHypotheses;
+    }
+
+    /**
+     * @return how many of the strong peaks chance alone would match to some lamp line within the
+     *         tolerance, from the local line density (see {@link LampMatcher})
+     */
+    public double chanceMatches() {
+        return chanceMatches;
+    }
+
+    /**
+     * @return the Poisson probability that chance alone matches at least {@link #strongMatched()}
+     *         strong peaks, given {@link #chanceMatches()}
+     */
+    public double chanceProbability() {
+        return chanceProbability;
+    }
+
+    /** @return how many distinct grown hypotheses the search verified */
+    public int distinctHypotheses() {
+        return distinctHypotheses;
     }
 
     /** @return the number of matched pairs */

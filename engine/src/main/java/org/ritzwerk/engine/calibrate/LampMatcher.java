@@ -2,61 +2,102 @@ package org.ritzwerk.engine.calibrate;
 
 import java.util.Arrays;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Set;
+import java.util.function.IntToDoubleFunction;
+import org.apache.commons.math3.special.Gamma;
+import org.ritzwerk.medium.Medium;
 
 /**
  * Pairs detected peaks with a lamp's reference lines without a starting solution: which peak is
- * which line, and a first pixel-to-wavelength polynomial.
+ * which line, and a first pixel-to-wavelength polynomial, for straight and strongly curved
+ * dispersions alike.
  *
- * <p><b>Search.</b> The strongest {@code strongPeaks} peaks (by flux) and the strongest
+ * <p><b>Seeds.</b> The strongest {@code strongPeaks} peaks (by flux) and the strongest
  * {@code strongLines} lines within the prior's wavelength range (by relative intensity) are each
- * sorted by position. Every triplet of nearby peaks (the second and third among the next four
- * strong peaks) is compared with every triplet of nearby lines (among the next six strong lines,
- * in the order the dispersion's sign implies): the ratio of the inner gap to the outer gap is
- * invariant under a linear map, so a triplet pair whose middle peak lies within
- * {@code tolerance + 0.02 span} pixels of where the outer pair puts the middle line, and whose
- * dispersion lies in the prior, seeds a hypothesis. (Local triplets tolerate the curvature of the
- * dispersion, which distant pairs would not. The idea is the one-dimensional form of matching
- * point lists by figures whose shape is invariant under the transformation sought: similar
- * triangles, E. J. Groth, Astron. J. 91, 1244 (1986); ratios of sides as the invariant,
- * F. G. Valdes, L. E. Campusano, J. D. Velasquez and P. B. Stetson, Publ. Astron. Soc. Pac.
- * 107, 1119 (1995).) Each seed is grown: a straight line through the three
- * pairs predicts the strong peaks in a window twice as wide as the span matched so far, each
- * predicted peak is matched to the nearest line of the whole list (one-to-one, the closer peak
- * wins) when within {@code tolerance} pixels, and a polynomial of degree 1, then 2, then up to
- * {@code maxDegree} (as matches and span allow) is refitted, until the window covers the detector
- * and the matches stop changing. The grown hypothesis that matches most of all the peaks wins
- * (ties: more strong peaks, then the smaller RMS); counting every peak, not only the strong ones
- * that seeded the search, keeps strong contaminating lines from steering the choice. The search is exhaustive and has no random part: the same input gives the same
- * answer.
+ * sorted by position. Every triplet of nearby peaks (the outer two at most four strong peaks
+ * apart) is compared with every triplet of nearby lines (the outer two at most
+ * {@value #LINE_NEIGHBOURS} strong lines apart, in the order the dispersion's sign implies): the
+ * ratio of the inner gap to the outer gap is invariant under a linear map, so a triplet pair whose
+ * middle line lies within {@code tolerance + 0.02 span + maxCurvature span^2 / (8 N)} pixels of
+ * where the outer pair puts it (the last term is how far a dispersion whose slope changes by
+ * {@code maxCurvature} over the N pixels bends away from a straight line over the span), and whose
+ * dispersion lies in the prior, seeds a hypothesis. (Local triplets tolerate the
+ * curvature of the dispersion, which distant pairs would not. The idea is the one-dimensional form
+ * of matching point lists by figures whose shape is invariant under the transformation sought:
+ * similar triangles, E. J. Groth, Astron. J. 91, 1244 (1986); ratios of sides as the invariant,
+ * F. G. Valdes, L. E. Campusano, J. D. Velasquez and P. B. Stetson, Publ. Astron. Soc. Pac. 107,
+ * 1119 (1995).)
+ *
+ * <p><b>Growth with a curvature prior.</b> A seed is grown one pair at a time. Its polynomial
+ * (degree {@code maxDegree}) is a Bayesian least-squares fit ({@link CurvedPolynomial}) in which
+ * each pair scatters by a third of the tolerance and the curvature terms have Gaussian priors: the
+ * quadratic term allows the slope d lambda / d p to change by up to {@code maxCurvature} (default
+ * 1, that is 100 %) from one end of the detector to the other, the cubic and higher terms less.
+ * Three close pairs therefore predict well near themselves and ever more loosely away from them,
+ * and the prediction's own standard deviation says how far: each unpaired strong peak has the
+ * window tolerance + 3 sigma of its prediction. A peak with no lamp line in its window is set
+ * aside as foreign (another gas, a second-order ghost); of the peaks with exactly one free line in
+ * their window, the one with the narrowest window is paired and the polynomial refitted; peaks
+ * with several lines in their window wait until the polynomial is surer. Growth ends when no
+ * peak can be paired. No extrapolation is trusted beyond what the prior and the pairs so far
+ * support, so a curved dispersion is followed, not overshot.
+ *
+ * <p><b>Verification and score.</b> The grown polynomial must be monotonic in the seed's
+ * direction over the whole detector, inside the prior, and (for air wavelengths) above 200 nm,
+ * where the air model starts. Then every peak, not only the strong ones, is matched to its
+ * nearest line within the tolerance (one-to-one, the closer peak wins), the polynomial refitted on
+ * those pairs and the peaks matched again. The score is a log-likelihood ratio: each matched peak
+ * adds max(0, -r^2 / (2 s^2) - ln(s sqrt(2 pi) rho)), its residual r against a scatter s of a sixth
+ * of the tolerance, weighed against rho, the density of lamp lines (per pixel) around it, which is
+ * what a peak at a random place would meet; so a match in a sparse part of the list, at a small
+ * residual, counts for much, and a match that chance would give in a dense part counts for
+ * little. The highest score wins (ties: more strong peaks matched). The search is exhaustive and
+ * has no random part: the same input gives the same answer.
+ *
+ * <p><b>Acceptance.</b> The winner must (1) match at least {@value #MIN_MATCHES} strong peaks
+ * (all three when the lamp has only three lines in range: a three-line lamp calibrates with a
+ * straight line), (2) match at least {@code minInlierFraction} of the strong peaks, and (3) match
+ * more strong peaks than chance explains: with lambda = sum over the strong peaks of
+ * min(1, 2 tolerance rho) the number of chance matches expected, the Poisson probability
+ * P(X &gt;= matched) times the number of distinct grown hypotheses must not exceed
+ * {@value #MAX_FALSE_ALARM}. The third test does not depend on any setting, so lowering
+ * {@code minInlierFraction} never lets a chance pairing through. The figures are kept in the
+ * {@link LampMatch} ({@link LampMatch#chanceMatches()}, {@link LampMatch#chanceProbability()}).
  *
  * <p><b>Limits.</b> The seeds come from the strongest peaks and lines only: when lines that are
- * not in the list (other gases, second order) take a large share of the strongest places, or the
- * lamp's relative intensities differ much from the table's, widen the search with
- * {@link #withStrongest(int, int)} (in trials, ten contaminants among the 25 strongest peaks of a
- * neon spectrum needed 40 and 40). Chance pairings of a wrong lamp list explained 20 to 44 % of
- * the strongest peaks in trials, hence the default minimum of 50 %.
+ * not in the list (other gases, second order) take most of the strongest places, or the lamp's
+ * relative intensities differ much from the table's, widen the search with
+ * {@link #withStrongest(int, int)}. A dispersion whose slope changes by more than
+ * {@code maxCurvature} across the detector needs {@link #withMaxCurvature(double)}.
  *
  * <p><b>Refinement.</b> The winner is re-matched against every peak and every line, and
  * refitted, until the pairs stop changing (at most 10 passes).
  *
- * <p><b>Failures</b> ({@link CalibrationException}): fewer than 4 peaks
+ * <p><b>Failures</b> ({@link CalibrationException}): fewer than 3 peaks
  * ({@link CalibrationException#TOO_FEW_PEAKS}) or lines within the prior
- * ({@link CalibrationException#TOO_FEW_LINES}); otherwise, when no solution in the prior explains
- * at least {@code minInlierFraction} of the strong peaks with at least 4 pairs, the search is
- * repeated without the prior: a good solution there gives {@link CalibrationException#OUTSIDE_PRIOR}
- * (the message names its range and dispersion); else fewer than 4 pairs anywhere gives
- * {@link CalibrationException#TOO_FEW_MATCHES} and more gives
- * {@link CalibrationException#LAMP_MISMATCH} (the message gives the best inlier fraction).
+ * ({@link CalibrationException#TOO_FEW_LINES}); otherwise, when no solution in the prior passes
+ * the acceptance tests, the search is repeated without the prior: a good solution there gives
+ * {@link CalibrationException#OUTSIDE_PRIOR} (the message names its range and dispersion); else
+ * too few pairs anywhere gives {@link CalibrationException#TOO_FEW_MATCHES} and more gives
+ * {@link CalibrationException#LAMP_MISMATCH}; the message gives the best pairing's figures, the
+ * chance expectation and what was searched.
  *
  * <p>Immutable and thread-safe.
  */
 public final class LampMatcher {
 
-    /** Fewest pairs a solution needs. */
+    /** Fewest pairs a solution needs when the lamp has at least this many lines in range. */
     public static final int MIN_MATCHES = 4;
+    /** Fewest pairs a solution of a three-line lamp needs. */
+    public static final int MIN_FEW_LINE_MATCHES = 3;
+    /** Default largest relative change of the slope across the detector the search allows. */
+    public static final double DEFAULT_MAX_CURVATURE = 1.0;
+    /** Largest accepted probability (times the hypotheses tried) that chance explains the pairs. */
+    public static final double MAX_FALSE_ALARM = 0.01;
     /** Default matching tolerance in pixels. */
     public static final double DEFAULT_TOLERANCE = 3;
     /** Default number of strongest peaks searched. */
@@ -69,9 +110,18 @@ public final class LampMatcher {
     public static final double DEFAULT_MIN_INLIER_FRACTION = 0.5;
 
     private static final int PEAK_NEIGHBOURS = 4;
-    private static final int LINE_NEIGHBOURS = 6;
+    private static final int LINE_NEIGHBOURS = 16;
     private static final double SPAN_TOLERANCE = 0.02;
-    private static final int MAX_GROW_ROUNDS = 30;
+    /** Most matchings of every peak while verifying a grown polynomial. */
+    private static final int VERIFY_PASSES = 4;
+    /** Pairs that offset, slope and curvature can always be made to meet; not evidence. */
+    private static final int FITTED_PAIRS = 3;
+    /** Pairs at which a growth is compared with those already made. */
+    private static final int MEMO_PAIRS = 4;
+    /** Half-width, in tolerances, of the region over which the line density is counted. */
+    private static final double DENSITY_HALF_WIDTH = 10;
+    /** Lowest wavelength of the air model, nm. */
+    private static final double AIR_MODEL_LOWEST_NM = 200;
     private static final int MAX_REFINE_PASSES = 10;
 
     /**
@@ -130,15 +180,17 @@ public final class LampMatcher {
     private final int strongLines;
     private final int maxDegree;
     private final double minInlierFraction;
+    private final double maxCurvature;
 
     private LampMatcher(Prior prior, double tolerance, int strongPeaks, int strongLines, int maxDegree,
-            double minInlierFraction) {
+            double minInlierFraction, double maxCurvature) {
         this.prior = prior;
         this.tolerance = tolerance;
         this.strongPeaks = strongPeaks;
         this.strongLines = strongLines;
         this.maxDegree = maxDegree;
         this.minInlierFraction = minInlierFraction;
+        this.maxCurvature = maxCurvature;
     }
 
     /**
@@ -148,13 +200,13 @@ public final class LampMatcher {
      */
     public static LampMatcher defaults() {
         return new LampMatcher(Prior.none(), DEFAULT_TOLERANCE, DEFAULT_STRONG_PEAKS, DEFAULT_STRONG_LINES,
-                DEFAULT_MAX_DEGREE, DEFAULT_MIN_INLIER_FRACTION);
+                DEFAULT_MAX_DEGREE, DEFAULT_MIN_INLIER_FRACTION, DEFAULT_MAX_CURVATURE);
     }
 
     /** @param prior what is known of the range and dispersion @return a copy with that prior */
     public LampMatcher withPrior(Prior prior) {
         return new LampMatcher(Objects.requireNonNull(prior, "prior"), tolerance, strongPeaks, strongLines, maxDegree,
-                minInlierFraction);
+                minInlierFraction, maxCurvature);
     }
 
     /**
@@ -167,7 +219,7 @@ public final class LampMatcher {
         if (!(pixels > 0) || Double.isInfinite(pixels)) {
             throw new IllegalArgumentException("tolerance must be finite and > 0 pixels, got " + pixels);
         }
-        return new LampMatcher(prior, pixels, strongPeaks, strongLines, maxDegree, minInlierFraction);
+        return new LampMatcher(prior, pixels, strongPeaks, strongLines, maxDegree, minInlierFraction, maxCurvature);
     }
 
     /**
@@ -182,7 +234,7 @@ public final class LampMatcher {
         if (lines < 4 || lines > 500) {
             throw new IllegalArgumentException("strong lines must be 4 to 500, got " + lines);
         }
-        return new LampMatcher(prior, tolerance, peaks, lines, maxDegree, minInlierFraction);
+        return new LampMatcher(prior, tolerance, peaks, lines, maxDegree, minInlierFraction, maxCurvature);
     }
 
     /**
@@ -193,7 +245,7 @@ public final class LampMatcher {
         if (degree < 1 || degree > 5) {
             throw new IllegalArgumentException("matcher degree must be 1 to 5, got " + degree);
         }
-        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, degree, minInlierFraction);
+        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, degree, minInlierFraction, maxCurvature);
     }
 
     /**
@@ -204,7 +256,21 @@ public final class LampMatcher {
         if (!(fraction >= 0 && fraction <= 1)) {
             throw new IllegalArgumentException("minimum inlier fraction must be 0 to 1, got " + fraction);
         }
-        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, maxDegree, fraction);
+        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, maxDegree, fraction, maxCurvature);
+    }
+
+    /**
+     * @param fraction the largest relative change of the slope d lambda / d p from one end of the
+     *                 detector to the other that the search allows for (the width of its prior
+     *                 on the quadratic term), 0.01 to 10; 1 (the default) is 100 %
+     * @return a copy with that limit
+     */
+    public LampMatcher withMaxCurvature(double fraction) {
+        if (!(fraction >= 0.01 && fraction <= 10)) {
+            throw new IllegalArgumentException("maximum slope change across the detector must be 0.01 to 10 (1 = "
+                    + "100 %), got " + fraction);
+        }
+        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, maxDegree, minInlierFraction, fraction);
     }
 
     /**
@@ -253,59 +319,96 @@ public final class LampMatcher {
                         + intensity[i]);
             }
         }
-        if (n < MIN_MATCHES) {
+        if (n < MIN_FEW_LINE_MATCHES) {
             throw new CalibrationException(CalibrationException.TOO_FEW_PEAKS, "found " + n + " peaks; a calibration "
-                    + "needs at least " + MIN_MATCHES);
+                    + "needs at least " + MIN_FEW_LINE_MATCHES + " (" + MIN_MATCHES + " unless the lamp has only "
+                    + MIN_FEW_LINE_MATCHES + " lines)");
         }
         int inPrior = linesWithin(lines, prior);
-        if (inPrior < MIN_MATCHES) {
+        if (inPrior < MIN_FEW_LINE_MATCHES) {
             throw new CalibrationException(CalibrationException.TOO_FEW_LINES, "the lamp list has " + inPrior + " of its "
                     + lines.size() + " lines (" + span(lines) + ") within the prior's range " + prior
-                    + "; a calibration needs at least " + MIN_MATCHES);
+                    + "; a calibration needs at least " + MIN_FEW_LINE_MATCHES);
+        }
+        int needed = Math.min(MIN_MATCHES, inPrior);
+        if (n < needed) {
+            throw new CalibrationException(CalibrationException.TOO_FEW_PEAKS, "found " + n + " peaks; with "
+                    + inPrior + " lamp lines in range a calibration needs at least " + needed);
         }
         Search inside = new Search(centre, intensity, pixels, lines, prior);
-        Candidate best = inside.run();
-        if (acceptable(best, inside)) {
-            return inside.refine(best, centreSigma);
+        Candidate found = inside.run();
+        Refined best = found == null ? null : inside.refine(found, centreSigma);
+        if (acceptable(best, inside, needed)) {
+            return best.match();
         }
         Search anywhere = prior.equals(Prior.none()) ? inside : new Search(centre, intensity, pixels, lines,
                 Prior.none());
-        Candidate free = anywhere == inside ? best : anywhere.run();
-        if (anywhere != inside && acceptable(free, anywhere)) {
-            LampMatch outside = anywhere.refine(free, centreSigma);
+        Candidate foundFree = anywhere == inside ? found : anywhere.run();
+        Refined free = anywhere == inside ? best : foundFree == null ? null : anywhere.refine(foundFree, centreSigma);
+        if (anywhere != inside && acceptable(free, anywhere, Math.min(MIN_MATCHES, linesWithin(lines, Prior.none())))) {
+            LampMatch outside = free.match();
             throw new CalibrationException(CalibrationException.OUTSIDE_PRIOR, String.format(Locale.ROOT,
                     "no solution within the prior (%s) matches at least %d peaks and %.0f%% of the %d strongest; "
                             + "one outside it does: %.2f to %.2f nm over pixels 0 to %d (%.4g nm/pixel), "
                             + "%d of %d strong peaks matched",
-                    prior, MIN_MATCHES, 100 * minInlierFraction, inside.strong.length, outside.firstWavelength(),
+                    prior, needed, 100 * minInlierFraction, inside.strong.length, outside.firstWavelength(),
                     outside.lastWavelength(), pixels - 1,
                     (outside.lastWavelength() - outside.firstWavelength()) / (pixels - 1), outside.strongMatched(),
                     outside.strongPeaks()));
         }
-        int bestCount = Math.max(best == null ? 0 : best.strongMatched, free == null ? 0 : free.strongMatched);
-        if (bestCount < MIN_MATCHES) {
+        Refined shownRefined = free != null && (best == null || free.measured().score > best.measured().score) ? free
+                : best;
+        Search shownSearch = shownRefined == free ? anywhere : inside;
+        Candidate shown = shownRefined == null ? null : shownRefined.measured();
+        if (shown == null || shown.strongMatched < needed) {
             throw new CalibrationException(CalibrationException.TOO_FEW_MATCHES, "the best pairing of " + n
-                    + " peaks with " + lines.size() + " lamp lines matches " + bestCount + " of the "
-                    + inside.strong.length + " strongest peaks, " + where() + "; "
-                    + "a calibration needs at least " + MIN_MATCHES);
+                    + " peaks with " + lines.size() + " lamp lines matches " + (shown == null ? 0 : shown.strongMatched)
+                    + " of the " + inside.strong.length + " strongest peaks, " + where(inside, anywhere) + "; "
+                    + "a calibration needs at least " + needed);
         }
-        Candidate shown = free != null && (best == null || free.strongMatched > best.strongMatched) ? free : best;
         throw new CalibrationException(CalibrationException.LAMP_MISMATCH, String.format(Locale.ROOT,
                 "the lamp lines (%s) do not explain the spectrum: the best pairing matches %d of the %d strongest "
-                        + "peaks (%.0f%%), below the %.0f%% required, %s",
-                span(lines), shown.strongMatched, inside.strong.length,
-                100.0 * shown.strongMatched / inside.strong.length, 100 * minInlierFraction, where()));
+                        + "peaks (%.0f%%; %.0f%% required), %d of them within %.2f pixels of their lines where chance "
+                        + "alone would put %.1f (probability %.2g over %d distinct pairings tried; at most %.2g "
+                        + "accepted), %s",
+                span(lines), shown.strongMatched, shownSearch.strong.length,
+                100.0 * shown.strongMatched / shownSearch.strong.length, 100 * minInlierFraction, shown.preciseMatched,
+                shown.preciseTolerance, shown.chance, chanceProbability(shown), shownSearch.evaluated,
+                MAX_FALSE_ALARM, where(inside, anywhere)));
     }
 
-    /** Where the search looked, for messages. */
-    private String where() {
-        return prior.equals(Prior.none()) ? "searching every wavelength and dispersion"
-                : "within the prior (" + prior + ") or outside it";
+    /** Where the search looked and what it tried, for messages. */
+    private String where(Search inside, Search anywhere) {
+        long seeds = inside.hypotheses + (anywhere == inside ? 0 : anywhere.hypotheses);
+        String tried = String.format(Locale.ROOT, "after %d seed triplets (the %d strongest peaks against the %d "
+                + "strongest lines, slope changes up to %.0f%% across the detector)", seeds, inside.strong.length,
+                inside.strongLine.length, 100 * maxCurvature);
+        return (prior.equals(Prior.none()) ? "searching every wavelength and dispersion "
+                : "within the prior (" + prior + ") and outside it ") + tried;
     }
 
-    private boolean acceptable(Candidate c, Search search) {
-        return c != null && c.strongMatched >= MIN_MATCHES
-                && c.strongMatched >= minInlierFraction * search.strong.length;
+    private boolean acceptable(Refined refined, Search search, int needed) {
+        if (refined == null) {
+            return false;
+        }
+        Candidate c = refined.measured();
+        return c.strongMatched >= needed
+                && c.strongMatched >= minInlierFraction * search.strong.length
+                && (needed < MIN_MATCHES || chanceProbability(c) * Math.max(1, search.evaluated) <= MAX_FALSE_ALARM);
+    }
+
+    /**
+     * The probability that chance alone puts at least as many strong peaks within the precise
+     * tolerance of a line, beyond the {@value #FITTED_PAIRS} pairs any polynomial can be made to
+     * meet: Poisson with the candidate's expected chance matches, P(X &gt;= m) = P(m, lambda), the
+     * regularised lower incomplete gamma function (common practice).
+     */
+    static double chanceProbability(Candidate c) {
+        int beyondFit = c.preciseMatched - FITTED_PAIRS;
+        if (beyondFit <= 0) {
+            return 1;
+        }
+        return Gamma.regularizedGammaP(beyondFit, Math.max(c.chance, 1e-9));
     }
 
     private static int linesWithin(LampLines lines, Prior prior) {
@@ -329,7 +432,7 @@ public final class LampMatcher {
         return String.format(Locale.ROOT, "%d lines, %.6g to %.6g nm", lines.size(), lo, hi);
     }
 
-    /** The pairs a seed matched in its first round (per strong peak, a line or -1), and the direction. */
+    /** The pairs a grown hypothesis ended with (per strong peak, a window line or -1), and the direction. */
     private record GrowthKey(int sign, int[] lines) {
         @Override
         public boolean equals(Object other) {
@@ -347,8 +450,17 @@ public final class LampMatcher {
         }
     }
 
-    /** One grown hypothesis: the polynomial and how many strong peaks it matches. */
-    private record Candidate(double[] coefficients, int strongMatched, int allMatched, double rms, int sign) {
+    /**
+     * One verified hypothesis: the polynomial, how many strong peaks and peaks it matches, its
+     * score (see the class comment), how many strong peaks lie within the precise tolerance and
+     * how many chance alone would put there, and the direction.
+     */
+    record Candidate(double[] coefficients, int strongMatched, int allMatched, double score, int preciseMatched,
+            double preciseTolerance, double chance, int sign) {
+    }
+
+    /** A refined winner: its figures after refinement, and the pairs. */
+    private record Refined(Candidate measured, LampMatch match) {
     }
 
     /** The search over one prior. */
@@ -363,14 +475,21 @@ public final class LampMatcher {
         /** Line indices within the prior's range, sorted by wavelength, and their wavelengths. */
         private final int[] window;
         private final double[] windowNm;
-        /** Strong line indices within the range, sorted by wavelength. */
+        /** Strong lines as indices into the window, sorted by wavelength. */
         private final int[] strongLine;
         private final double mid;
         private final double half;
+        private final double[] priorSigma;
+        private final CurvedPolynomial polynomial;
         private long hypotheses;
-        private final Map<GrowthKey, Candidate> grown = new HashMap<>();
+        private int evaluated;
+        private int mostPairs;
+        private final Map<GrowthKey, Candidate> verified = new HashMap<>();
+        private final Set<GrowthKey> started = new HashSet<>();
         private int[] owner = new int[0];
         private double[] distance = new double[0];
+        private final double[] fitX;
+        private final double[] fitY;
 
         Search(double[] centre, double[] intensity, int pixels, LampLines lines, Prior searchPrior) {
             this.centre = centre;
@@ -398,12 +517,18 @@ public final class LampMatcher {
             for (int k = 0; k < window.length; k++) {
                 windowNm[k] = lines.wavelength(window[k]);
             }
-            int[] strongOfWindow = strongest(window.length, strongLines, k -> lines.intensity(window[k]),
-                    k -> windowNm[k]);
-            strongLine = new int[strongOfWindow.length];
-            for (int k = 0; k < strongLine.length; k++) {
-                strongLine[k] = window[strongOfWindow[k]];
+            strongLine = strongest(window.length, strongLines, k -> lines.intensity(window[k]), k -> windowNm[k]);
+            int degree = Math.max(1, maxDegree);
+            polynomial = new CurvedPolynomial(degree);
+            // Prior widths of the curvature terms relative to a_1 (scaled pixel): a slope change of
+            // maxCurvature from one end of the detector to the other is 4 a_2 / a_1; the cubic and
+            // higher terms get a third and a tenth of that.
+            priorSigma = new double[degree + 1];
+            for (int d = 2; d <= degree; d++) {
+                priorSigma[d] = maxCurvature * (d == 2 ? 0.25 : d == 3 ? 0.08 : 0.025);
             }
+            fitX = new double[Math.max(centre.length, 3)];
+            fitY = new double[Math.max(centre.length, 3)];
         }
 
         Candidate run() {
@@ -412,49 +537,60 @@ public final class LampMatcher {
                 if (!searchPrior.allowsDirection(sign)) {
                     continue;
                 }
-                double[] nm = new double[strongLine.length];
-                for (int k = 0; k < nm.length; k++) {
-                    nm[k] = lines.wavelength(strongLine[sign > 0 ? k : nm.length - 1 - k]);
+                int[] order = new int[strongLine.length];
+                for (int k = 0; k < order.length; k++) {
+                    order[k] = strongLine[sign > 0 ? k : order.length - 1 - k];
                 }
-                best = better(best, searchDirection(nm, sign));
+                best = better(best, searchDirection(order, sign));
             }
             return best;
         }
 
-        private Candidate searchDirection(double[] nm, int sign) {
+        /**
+         * Every triplet of nearby strong peaks against every triplet of nearby strong lines taken in
+         * the direction's order (window indices in {@code order}).
+         */
+        private Candidate searchDirection(int[] order, int sign) {
             Candidate best = null;
             int np = strongPixel.length;
-            int nl = nm.length;
-            double[] seedPixel = new double[3];
-            double[] seedNm = new double[3];
+            int nl = order.length;
+            int[] seedPeak = new int[3];
+            int[] seedLine = new int[3];
             for (int i = 0; i + 2 < np; i++) {
-                for (int j = i + 1; j < np && j <= i + PEAK_NEIGHBOURS; j++) {
-                    for (int k = j + 1; k < np && k <= i + PEAK_NEIGHBOURS; k++) {
-                        double spanPixels = strongPixel[k] - strongPixel[i];
-                        if (!(spanPixels > 0)) {
-                            continue;
-                        }
-                        double allowed = tolerance + SPAN_TOLERANCE * spanPixels;
+                for (int k = i + 2; k < np && k <= i + PEAK_NEIGHBOURS; k++) {
+                    double spanPixels = strongPixel[k] - strongPixel[i];
+                    if (!(spanPixels > 0)) {
+                        continue;
+                    }
+                    // The middle peak of three lies off the straight line through the outer two by
+                    // up to (slope change across the triplet) x span / 8.
+                    double allowed = tolerance + SPAN_TOLERANCE * spanPixels
+                            + maxCurvature * spanPixels * spanPixels / (8 * pixels);
+                    for (int j = i + 1; j < k; j++) {
+                        double ratio = (strongPixel[j] - strongPixel[i]) / spanPixels;
                         for (int a = 0; a + 2 < nl; a++) {
-                            for (int b = a + 1; b < nl && b <= a + LINE_NEIGHBOURS; b++) {
-                                for (int c = b + 1; c < nl && c <= a + LINE_NEIGHBOURS; c++) {
-                                    double dispersion = (nm[c] - nm[a]) / spanPixels;
-                                    if (dispersion < searchPrior.minDispersion()
-                                            || dispersion > searchPrior.maxDispersion() || dispersion == 0) {
-                                        continue;
-                                    }
-                                    double predicted = strongPixel[i] + (nm[b] - nm[a]) / dispersion;
-                                    if (Math.abs(predicted - strongPixel[j]) > allowed) {
+                            double nmA = windowNm[order[a]];
+                            for (int c = a + 2; c < nl && c <= a + LINE_NEIGHBOURS; c++) {
+                                double nmC = windowNm[order[c]];
+                                double dispersion = (nmC - nmA) / spanPixels;
+                                if (dispersion < searchPrior.minDispersion()
+                                        || dispersion > searchPrior.maxDispersion() || dispersion == 0) {
+                                    continue;
+                                }
+                                double target = nmA + ratio * (nmC - nmA);
+                                double allowedNm = allowed * Math.abs(dispersion);
+                                for (int b = a + 1; b < c; b++) {
+                                    if (Math.abs(windowNm[order[b]] - target) > allowedNm) {
                                         continue;
                                     }
                                     hypotheses++;
-                                    seedPixel[0] = strongPixel[i];
-                                    seedPixel[1] = strongPixel[j];
-                                    seedPixel[2] = strongPixel[k];
-                                    seedNm[0] = nm[a];
-                                    seedNm[1] = nm[b];
-                                    seedNm[2] = nm[c];
-                                    best = better(best, grow(seedPixel, seedNm, sign));
+                                    seedPeak[0] = i;
+                                    seedPeak[1] = j;
+                                    seedPeak[2] = k;
+                                    seedLine[0] = order[a];
+                                    seedLine[1] = order[b];
+                                    seedLine[2] = order[c];
+                                    best = better(best, grow(seedPeak, seedLine, sign));
                                 }
                             }
                         }
@@ -468,107 +604,253 @@ public final class LampMatcher {
             if (b == null) {
                 return a;
             }
-            if (a == null || b.allMatched > a.allMatched
-                    || (b.allMatched == a.allMatched && b.strongMatched > a.strongMatched)
-                    || (b.allMatched == a.allMatched && b.strongMatched == a.strongMatched && b.rms < a.rms)) {
+            if (a == null || b.score > a.score || (b.score == a.score && b.strongMatched > a.strongMatched)) {
                 return b;
             }
             return a;
         }
 
-        /** Grows a seed of three pairs over the detector; null when it dies or leaves the prior. */
-        private Candidate grow(double[] seedPixel, double[] seedNm, int sign) {
-            double[] x = new double[3];
-            for (int k = 0; k < 3; k++) {
-                x[k] = (seedPixel[k] - mid) / half;
+        /**
+         * Grows a seed of three pairs over the strong peaks, most certain prediction first, then
+         * verifies the result over every peak; null when it dies or leaves the prior.
+         */
+        private Candidate grow(int[] seedPeak, int[] seedLine, int sign) {
+            int np = strongPixel.length;
+            int[] lineOf = new int[np];
+            Arrays.fill(lineOf, -1);
+            boolean[] closed = new boolean[np];
+            for (int s = 0; s < 3; s++) {
+                lineOf[seedPeak[s]] = seedLine[s];
             }
-            double[] a = PolynomialLeastSquares.coefficients(x, seedNm, 1);
-            if (a == null) {
+            double slopeGuess = (windowNm[seedLine[2]] - windowNm[seedLine[0]])
+                    / ((strongPixel[seedPeak[2]] - strongPixel[seedPeak[0]]) / half);
+            if (!fitStrong(lineOf, slopeGuess)) {
                 return null;
             }
-            double lo = seedPixel[0];
-            double hi = seedPixel[2];
-            int[] matchedLine = new int[strongPixel.length];
-            int previous = -1;
-            boolean previousCovered = false;
-            int count = 0;
-            GrowthKey key = null;
-            for (int round = 0; round < MAX_GROW_ROUNDS; round++) {
-                double extend = Math.max(hi - lo, pixels / 20.0);
-                double from = lo - extend;
-                double to = hi + extend;
-                count = assign(a, strongPixel, from, to, matchedLine);
-                // A seed that explains no fourth peak near itself is not worth growing further;
-                // the right solution is also seeded elsewhere, where peaks are denser.
-                if (count < (round == 0 ? MIN_MATCHES : 3)) {
-                    return null;
-                }
-                if (round == 0) {
-                    // From here on the growth depends only on the pairs matched, so seeds that
-                    // match the same pairs end in the same candidate: grow it once.
-                    key = new GrowthKey(sign, matchedLine.clone());
-                    if (grown.containsKey(key)) {
-                        return grown.get(key);
+            int pairs = 3;
+            while (true) {
+                int pick = -1;
+                int pickLine = -1;
+                double pickWidth = Double.POSITIVE_INFINITY;
+                for (int k = 0; k < np; k++) {
+                    if (lineOf[k] >= 0 || closed[k]) {
+                        continue;
+                    }
+                    double x = (strongPixel[k] - mid) / half;
+                    double slopeNm = polynomial.derivative(x) / half;
+                    if (!(slopeNm * sign > 0)) {
+                        closed[k] = true; // the polynomial folds here: no prediction
+                        continue;
+                    }
+                    double predicted = polynomial.value(x);
+                    double widthNm = tolerance * Math.abs(slopeNm) + 3 * polynomial.sigma(x);
+                    int only = onlyFreeLine(predicted, widthNm, lineOf);
+                    if (only == NONE) {
+                        closed[k] = true; // no lamp line can be this peak: a foreign line or a ghost
+                    } else if (only >= 0 && widthNm / Math.abs(slopeNm) < pickWidth) {
+                        pick = k;
+                        pickLine = only;
+                        pickWidth = widthNm / Math.abs(slopeNm);
                     }
                 }
-                double first = Double.POSITIVE_INFINITY;
-                double last = Double.NEGATIVE_INFINITY;
-                double[] px = new double[count];
-                double[] py = new double[count];
-                int m = 0;
-                for (int k = 0; k < strongPixel.length; k++) {
-                    if (matchedLine[k] >= 0) {
-                        first = Math.min(first, strongPixel[k]);
-                        last = Math.max(last, strongPixel[k]);
-                        px[m] = (strongPixel[k] - mid) / half;
-                        py[m] = windowNm[matchedLine[k]];
-                        m++;
-                    }
-                }
-                int degree = degreeFor(count, (last - first) / pixels);
-                double[] next = PolynomialLeastSquares.coefficients(px, py, degree);
-                if (next == null) {
-                    return null;
-                }
-                a = next;
-                lo = first;
-                hi = last;
-                boolean covered = from <= 0 && to >= pixels - 1;
-                if (covered && previousCovered && count == previous) {
+                if (pick < 0) {
                     break;
                 }
-                previous = count;
-                previousCovered = covered;
-            }
-            Candidate result = null;
-            if (withinPrior(a, sign)) {
-                double sum = 0;
-                for (int k = 0; k < strongPixel.length; k++) {
-                    if (matchedLine[k] >= 0) {
-                        double r = residualPixels(a, strongPixel[k], windowNm[matchedLine[k]]);
-                        sum += r * r;
+                lineOf[pick] = pickLine;
+                if (++pairs == MEMO_PAIRS) {
+                    // From here on the growth depends only on the pairs so far (up to the peaks set
+                    // aside): seeds that reach the same four pairs end alike, so grow each set once.
+                    if (!started.add(new GrowthKey(sign, lineOf.clone()))) {
+                        return null;
                     }
                 }
-                int all = assign(a, centre, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
-                        new int[centre.length]);
-                result = new Candidate(a, count, all, Math.sqrt(sum / count), sign);
+                if (!fitStrong(lineOf, polynomial.slope())) {
+                    return null;
+                }
             }
-            grown.put(key, result);
+            // A growth that stopped at a few pairs, or at well under half of the best growth so
+            // far, cannot win: not worth verifying.
+            if (pairs < Math.min(MIN_MATCHES, window.length) || 2 * pairs < mostPairs) {
+                return null;
+            }
+            mostPairs = Math.max(mostPairs, pairs);
+            GrowthKey key = new GrowthKey(sign, lineOf);
+            if (verified.containsKey(key)) {
+                return verified.get(key);
+            }
+            Candidate result = verify(polynomial.coefficients(), sign);
+            verified.put(key, result);
+            evaluated++;
             return result;
         }
 
-        private int degreeFor(int count, double spanFraction) {
-            int degree = 1;
-            if (count >= 5 && spanFraction >= 0.2) {
-                degree = 2;
+        /** Marker of {@link #onlyFreeLine}: no free line in the window. */
+        private static final int NONE = -1;
+        /** Marker of {@link #onlyFreeLine}: more than one. */
+        private static final int SEVERAL = -2;
+
+        /** The one window line within widthNm of nm that no strong peak has taken, or NONE / SEVERAL. */
+        private int onlyFreeLine(double nm, double widthNm, int[] lineOf) {
+            int from = lowerBound(nm - widthNm);
+            int found = NONE;
+            for (int l = from; l < windowNm.length && windowNm[l] <= nm + widthNm; l++) {
+                if (taken(l, lineOf)) {
+                    continue;
+                }
+                if (found != NONE) {
+                    return SEVERAL;
+                }
+                found = l;
             }
-            if (count >= 8 && spanFraction >= 0.5) {
-                degree = 3;
+            return found;
+        }
+
+        private boolean taken(int line, int[] lineOf) {
+            for (int l : lineOf) {
+                if (l == line) {
+                    return true;
+                }
             }
-            if (count >= 12 && spanFraction >= 0.7) {
-                degree = maxDegree;
+            return false;
+        }
+
+        /** The first window index whose wavelength is &gt;= nm. */
+        private int lowerBound(double nm) {
+            int k = Arrays.binarySearch(windowNm, nm);
+            if (k < 0) {
+                return -k - 1;
             }
-            return Math.min(degree, maxDegree);
+            while (k > 0 && windowNm[k - 1] == nm) {
+                k--;
+            }
+            return k;
+        }
+
+        /** Fits the strong pairs; false when the fit fails. */
+        private boolean fitStrong(int[] lineOf, double slope) {
+            int m = 0;
+            for (int k = 0; k < lineOf.length; k++) {
+                if (lineOf[k] >= 0) {
+                    fitX[m] = (strongPixel[k] - mid) / half;
+                    fitY[m] = windowNm[lineOf[k]];
+                    m++;
+                }
+            }
+            return fitPairs(m, slope);
+        }
+
+        /** Fits the first m of fitX/fitY with the curvature prior scaled by the slope a_1 (scaled pixel). */
+        private boolean fitPairs(int m, double slope) {
+            double a1 = Math.abs(slope);
+            if (!(a1 > 0) || Double.isInfinite(a1)) {
+                return false;
+            }
+            double[] sigma = priorSigma.clone();
+            for (int d = 2; d < sigma.length; d++) {
+                sigma[d] *= a1;
+            }
+            // Scatter of a pair about the polynomial: a third of the tolerance, in nm.
+            double noise = tolerance / 3 * a1 / half;
+            return polynomial.fit(fitX, fitY, m, noise, sigma);
+        }
+
+        /**
+         * Verifies a grown polynomial over the detector: monotonic and inside the prior, then every
+         * peak matched within the tolerance and the polynomial refitted on those pairs, until the
+         * pairs settle (at most {@value #VERIFY_PASSES} matchings), and scored.
+         */
+        private Candidate verify(double[] a, int sign) {
+            if (!withinPrior(a, sign)) {
+                return null;
+            }
+            int[] matched = new int[centre.length];
+            int[] previous = new int[centre.length];
+            for (int pass = 0; pass < VERIFY_PASSES; pass++) {
+                int count = assign(a, centre, matched);
+                if (count < MIN_FEW_LINE_MATCHES) {
+                    return null;
+                }
+                if (pass == VERIFY_PASSES - 1 || (pass > 0 && Arrays.equals(previous, matched))) {
+                    break;
+                }
+                System.arraycopy(matched, 0, previous, 0, matched.length);
+                int m = 0;
+                for (int k = 0; k < centre.length; k++) {
+                    if (matched[k] >= 0) {
+                        fitX[m] = (centre[k] - mid) / half;
+                        fitY[m] = windowNm[matched[k]];
+                        m++;
+                    }
+                }
+                if (!fitPairs(m, a[1])) {
+                    return null;
+                }
+                a = polynomial.coefficients();
+                if (!withinPrior(a, sign)) {
+                    return null;
+                }
+            }
+            double scatter = tolerance / 6;
+            double score = 0;
+            int all = 0;
+            for (int k = 0; k < centre.length; k++) {
+                if (matched[k] >= 0) {
+                    all++;
+                    double x = (centre[k] - mid) / half;
+                    double slope = Math.abs(PolynomialLeastSquares.derivative(a, x) / half);
+                    double r = residualPixels(a, centre[k], windowNm[matched[k]]) / scatter;
+                    double density = lineDensity(windowNm[matched[k]], slope);
+                    // log of [Gaussian density of the residual] / [density of lamp lines there]
+                    double gain = -0.5 * r * r - Math.log(scatter * Math.sqrt(2 * Math.PI) * density);
+                    score += Math.max(0, gain);
+                }
+            }
+            return measure(a, sign, score, all);
+        }
+
+        /** The strong-peak figures of a polynomial, and its chance expectation, as a candidate. */
+        private Candidate measure(double[] a, int sign, double score, int all) {
+            int[] strongLineOf = new int[strongPixel.length];
+            int strongMatched = assign(a, strongPixel, strongLineOf);
+            // Chance, judged over every peak at the precision the pairs reach: the peaks within
+            // three robust standard deviations of their lines (at least a thirtieth of the
+            // tolerance), against the matches chance gives within that distance.
+            int[] lineOf = new int[centre.length];
+            int matched = assign(a, centre, lineOf);
+            double[] absResidual = new double[matched];
+            int m = 0;
+            for (int k = 0; k < centre.length; k++) {
+                if (lineOf[k] >= 0) {
+                    absResidual[m++] = Math.abs(residualPixels(a, centre[k], windowNm[lineOf[k]]));
+                }
+            }
+            Arrays.sort(absResidual);
+            double robustSigma = matched == 0 ? tolerance : 1.4826 * absResidual[(matched - 1) / 2];
+            double precise = Math.min(tolerance, Math.max(3 * robustSigma, tolerance / 30));
+            int preciseMatched = 0;
+            for (double r : absResidual) {
+                if (r <= precise) {
+                    preciseMatched++;
+                }
+            }
+            double chance = 0;
+            for (int k = 0; k < centre.length; k++) {
+                double x = (centre[k] - mid) / half;
+                double slope = Math.abs(PolynomialLeastSquares.derivative(a, x) / half);
+                chance += Math.min(1, 2 * precise * lineDensity(PolynomialLeastSquares.evaluate(a, x), slope));
+            }
+            return new Candidate(a, strongMatched, all, score, preciseMatched, precise, chance, sign);
+        }
+
+        /**
+         * Lamp lines per pixel near nm: the lines within DENSITY_HALF_WIDTH tolerances either side,
+         * counting at least one.
+         */
+        private double lineDensity(double nm, double slope) {
+            double halfWidthNm = DENSITY_HALF_WIDTH * tolerance * slope;
+            int from = lowerBound(nm - halfWidthNm);
+            int to = lowerBound(nm + halfWidthNm);
+            return Math.max(1, to - from) / (2 * DENSITY_HALF_WIDTH * tolerance);
         }
 
         /** Where the polynomial puts a line, as a pixel residual (first order). */
@@ -579,12 +861,13 @@ public final class LampMatcher {
         }
 
         /**
-         * Matches the peaks within [from, to] to their nearest lines of the window, one-to-one.
+         * Matches peaks to their nearest lines of the window within the tolerance, one-to-one (the
+         * closer peak wins a line).
          *
          * @param matched receives, per peak, the index into the window's lines, or -1
          * @return the number matched
          */
-        private int assign(double[] a, double[] peakPixel, double from, double to, int[] matched) {
+        private int assign(double[] a, double[] peakPixel, int[] matched) {
             int n = peakPixel.length;
             // Scratch arrays reused across the many hypotheses of one search (one thread).
             if (owner.length != window.length) {
@@ -596,11 +879,7 @@ public final class LampMatcher {
             Arrays.fill(owner, -1);
             Arrays.fill(matched, -1);
             for (int k = 0; k < n; k++) {
-                double p = peakPixel[k];
-                if (p < from || p > to) {
-                    continue;
-                }
-                double x = (p - mid) / half;
+                double x = (peakPixel[k] - mid) / half;
                 double nm = PolynomialLeastSquares.evaluate(a, x);
                 double slope = Math.abs(PolynomialLeastSquares.derivative(a, x) / half);
                 int line = nearest(nm);
@@ -646,11 +925,16 @@ public final class LampMatcher {
             return nm - windowNm[above - 1] <= windowNm[above] - nm ? above - 1 : above;
         }
 
-        /** Monotonic in the hypothesis' direction over the detector, and inside the prior. */
+        /**
+         * Monotonic in the hypothesis' direction over the detector, inside the prior, and within
+         * the reach of the lamp's lines and of the lines' medium.
+         */
         private boolean withinPrior(double[] a, int sign) {
             double margin = searchPrior.margin();
             double slack = 0.05 * Math.max(Math.abs(searchPrior.minDispersion()),
                     Math.abs(searchPrior.maxDispersion()));
+            double lowest = Math.max(searchPrior.minWavelengthNm() - margin,
+                    lines.medium() instanceof Medium.Air ? AIR_MODEL_LOWEST_NM : 0);
             int samples = 64;
             for (int s = 0; s <= samples; s++) {
                 double p = (pixels - 1) * (double) s / samples;
@@ -664,7 +948,7 @@ public final class LampMatcher {
                     return false;
                 }
                 double nm = PolynomialLeastSquares.evaluate(a, x);
-                if (nm < searchPrior.minWavelengthNm() - margin || nm > searchPrior.maxWavelengthNm() + margin) {
+                if (!(nm > lowest) || nm > searchPrior.maxWavelengthNm() + margin) {
                     return false;
                 }
             }
@@ -672,42 +956,33 @@ public final class LampMatcher {
         }
 
         /** Re-matches the winner against every peak and line until the pairs settle. */
-        LampMatch refine(Candidate best, double[] centreSigma) {
+        Refined refine(Candidate best, double[] centreSigma) {
             double[] a = best.coefficients;
             int n = centre.length;
             int[] matched = new int[n];
-            int count = 0;
             int[] previous = null;
             for (int pass = 0; pass < MAX_REFINE_PASSES; pass++) {
-                count = assign(a, centre, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY, matched);
+                int count = assign(a, centre, matched);
                 if (previous != null && Arrays.equals(previous, matched)) {
                     break;
                 }
                 previous = matched.clone();
-                double[] px = new double[count];
-                double[] py = new double[count];
-                double first = Double.POSITIVE_INFINITY;
-                double last = Double.NEGATIVE_INFINITY;
                 int m = 0;
                 for (int k = 0; k < n; k++) {
                     if (matched[k] >= 0) {
-                        px[m] = (centre[k] - mid) / half;
-                        py[m] = windowNm[matched[k]];
-                        first = Math.min(first, centre[k]);
-                        last = Math.max(last, centre[k]);
+                        fitX[m] = (centre[k] - mid) / half;
+                        fitY[m] = windowNm[matched[k]];
                         m++;
                     }
                 }
-                PolynomialLeastSquares.Solution next = PolynomialLeastSquares.fit(px, py, null, null,
-                        degreeFor(count, (last - first) / pixels));
-                if (next == null) {
+                if (count < MIN_FEW_LINE_MATCHES || !fitPairs(m, a[1])
+                        || !withinPrior(polynomial.coefficients(), best.sign)) {
                     break;
                 }
-                a = next.coefficients();
+                a = polynomial.coefficients();
             }
-            int[] strongMatchedLine = new int[strongPixel.length];
-            int strongMatched = assign(a, strongPixel, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
-                    strongMatchedLine);
+            int all = assign(a, centre, matched);
+            Candidate measured = measure(a, best.sign, best.score, all);
             int[] order = sortBy(indicesOf(matched), k -> centre[k]);
             int size = order.length;
             int[] peakIndex = new int[size];
@@ -729,8 +1004,9 @@ public final class LampMatcher {
             }
             double firstNm = PolynomialLeastSquares.evaluate(a, (0 - mid) / half);
             double lastNm = PolynomialLeastSquares.evaluate(a, (pixels - 1 - mid) / half);
-            return new LampMatch(peakIndex, lineIndex, pixel, pixelSigma, nm, nmSigma, lines.sigmasGiven(), residual,
-                    strongPixel.length, strongMatched, a.length - 1, hypotheses, firstNm, lastNm, lines.medium());
+            return new Refined(measured, new LampMatch(peakIndex, lineIndex, pixel, pixelSigma, nm, nmSigma,
+                    lines.sigmasGiven(), residual, strongPixel.length, measured.strongMatched, a.length - 1, hypotheses,
+                    firstNm, lastNm, lines.medium(), measured.chance, chanceProbability(measured), evaluated));
         }
     }
 
@@ -752,8 +1028,7 @@ public final class LampMatcher {
     }
 
     /** The indices 0 .. n-1 of the {@code limit} largest by {@code rank} (ties: lower index), sorted by {@code key}. */
-    private static int[] strongest(int n, int limit, java.util.function.IntToDoubleFunction rank,
-            java.util.function.IntToDoubleFunction key) {
+    private static int[] strongest(int n, int limit, IntToDoubleFunction rank, IntToDoubleFunction key) {
         Integer[] order = new Integer[n];
         for (int i = 0; i < n; i++) {
             order[i] = i;
@@ -770,7 +1045,7 @@ public final class LampMatcher {
         return sortBy(chosen, key);
     }
 
-    private static int[] sortBy(int[] indices, java.util.function.IntToDoubleFunction key) {
+    private static int[] sortBy(int[] indices, IntToDoubleFunction key) {
         Integer[] boxed = new Integer[indices.length];
         for (int i = 0; i < indices.length; i++) {
             boxed[i] = indices[i];

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.Set;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.medium.Medium;
@@ -147,10 +148,93 @@ class CalibrationLampMatcherTest {
                 () -> blue.match(scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, NEON));
         assertEquals(CalibrationException.TOO_FEW_LINES, e.code());
         assertTrue(e.getMessage().contains("has 0 of its 59 lines"), e.getMessage());
-        LampLines three = LampLines.of(new double[] {585.24879, 640.2248, 692.94673}, null, null, Medium.air());
+        LampLines two = LampLines.of(new double[] {585.24879, 640.2248}, null, null, Medium.air());
         CalibrationException few = assertThrows(CalibrationException.class, () -> LampMatcher.defaults().match(
-                scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, three));
+                scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, two));
         assertEquals(CalibrationException.TOO_FEW_LINES, few.code());
+        // Three lamp lines against a spectrum of some fifty peaks: three pairs cannot be half of the
+        // strongest peaks, so the pairing is refused rather than guessed.
+        LampLines three = LampLines.of(new double[] {585.24879, 640.2248, 692.94673}, null, null, Medium.air());
+        CalibrationException short3 = assertThrows(CalibrationException.class, () -> LampMatcher.defaults().match(
+                scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, three));
+        assertTrue(Set.of(CalibrationException.TOO_FEW_MATCHES, CalibrationException.LAMP_MISMATCH)
+                .contains(short3.code()), short3.getMessage());
+    }
+
+    @Test
+    void aThreeLineLampCalibratesWithAStraightLineAndRefusesACubic() {
+        // Three Hg I lines (253.65, 435.83, 546.07 nm, the built-in set's strongest) seen by an
+        // invented 1024-pixel spectrometer with 0.35 nm per pixel from 230 nm.
+        double[] nm = {253.6517, 435.8328, 546.0735};
+        double[] centre = new double[3];
+        for (int i = 0; i < 3; i++) {
+            centre[i] = (nm[i] - 230) / 0.35 + (i == 1 ? 0.03 : -0.02);
+        }
+        LampLines mercury = LampLines.of(nm, new double[] {1000, 1000, 500}, null, Medium.air());
+        LampMatch match = LampMatcher.defaults().match(centre, new double[] {0.05, 0.05, 0.05},
+                new double[] {900, 1000, 500}, 1024, mercury);
+        assertEquals(3, match.size());
+        DispersionSolution line = match.fit(DispersionFit.automatic(3));
+        assertEquals(1, line.degree());
+        assertEquals(230 + 0.35 * 512, line.wavelengthAt(512), 0.05 * 0.35);
+        assertTrue(line.wavelengthSigmaAt(512) > 0, "a straight line through three pairs has an uncertainty");
+        CalibrationPeakFinderTest.assertMessage("a degree-3 dispersion fit needs at least 5 pairs",
+                () -> match.fit(DispersionFit.ofDegree(3)));
+    }
+
+    @Test
+    void loweringTheAcceptanceShareNeverAcceptsChance() {
+        // Random peaks, and neon peaks against the argon list, with no share of the strongest
+        // peaks required: the chance test still refuses, and says what chance gives.
+        SplittableRandom random = new SplittableRandom(11);
+        double[] centre = new double[40];
+        double[] sigma = new double[40];
+        double[] intensity = new double[40];
+        for (int k = 0; k < centre.length; k++) {
+            centre[k] = 10 + (LampScene.PIXELS - 20) * random.nextDouble();
+            sigma[k] = 0.05;
+            intensity[k] = 100 + 900 * random.nextDouble();
+        }
+        LampMatcher anything = LampMatcher.defaults().withMinInlierFraction(0);
+        CalibrationException noise = assertThrows(CalibrationException.class,
+                () -> anything.match(centre, sigma, intensity, LampScene.PIXELS, NEON));
+        assertTrue(noise.getMessage().contains("where chance alone would put"), noise.getMessage());
+        Scene scene = new Scene(6, 8, false);
+        CalibrationException argon = assertThrows(CalibrationException.class, () -> anything.match(scene.centre,
+                scene.sigma, scene.intensity, LampScene.PIXELS, ARGON));
+        assertEquals(CalibrationException.LAMP_MISMATCH, argon.code(), argon.getMessage());
+    }
+
+    @Test
+    void aStronglyCurvedDispersionIsFollowed() {
+        // The slope runs from 0.10 to 0.16 nm per pixel across 4096 pixels (60 % change): the
+        // neon lines placed by that invented truth are paired correctly without a prior.
+        double[] truth = {480, 0.10, 0.06 / (2 * 4095)};
+        java.util.List<Double> pixels = new java.util.ArrayList<>();
+        java.util.List<Integer> lineOf = new java.util.ArrayList<>();
+        for (int l = 0; l < LampScene.NEON_NM.length; l++) {
+            double w = LampScene.NEON_NM[l];
+            double p = (-truth[1] + Math.sqrt(truth[1] * truth[1] + 4 * truth[2] * (w - truth[0]))) / (2 * truth[2]);
+            if (p > 5 && p < 4090) {
+                pixels.add(p);
+                lineOf.add(l);
+            }
+        }
+        int n = pixels.size();
+        double[] centre = new double[n];
+        double[] intensity = new double[n];
+        for (int k = 0; k < n; k++) {
+            centre[k] = pixels.get(k);
+            intensity[k] = LampScene.NEON_INTENSITY[lineOf.get(k)];
+        }
+        double[] sigma = new double[n];
+        java.util.Arrays.fill(sigma, 0.05);
+        LampMatch match = LampMatcher.defaults().match(centre, sigma, intensity, 4096, NEON);
+        assertTrue(match.size() >= n - 2, "matched " + match.size() + " of " + n);
+        for (int i = 0; i < match.size(); i++) {
+            assertEquals((int) lineOf.get(match.peakIndex(i)), match.lineIndex(i), "pair " + i);
+        }
+        assertTrue(match.chanceProbability() < 1e-10, "chance " + match.chanceProbability());
     }
 
     @Test
