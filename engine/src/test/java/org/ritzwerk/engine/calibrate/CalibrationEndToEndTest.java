@@ -160,13 +160,13 @@ class CalibrationEndToEndTest {
         assertNamesTheTrueRange(e.getMessage());
     }
 
-    /** The message names the solution outside the prior: 350 to 900 nm over the detector. */
+    /** The message names the solution outside the prior: 460 to 940 nm over the detector. */
     static void assertNamesTheTrueRange(String message) {
         java.util.regex.Matcher m = java.util.regex.Pattern.compile("([0-9.]+) to ([0-9.]+) nm over pixels")
                 .matcher(message);
         assertTrue(m.find(), message);
-        assertEquals(350, Double.parseDouble(m.group(1)), 0.1, message);
-        assertEquals(900, Double.parseDouble(m.group(2)), 0.1, message);
+        assertEquals(460, Double.parseDouble(m.group(1)), 0.1, message);
+        assertEquals(940, Double.parseDouble(m.group(2)), 0.1, message);
     }
 
     @Test

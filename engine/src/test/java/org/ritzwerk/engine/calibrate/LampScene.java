@@ -9,17 +9,16 @@ import org.ritzwerk.engine.synth.PixelGrid;
 
 /**
  * A synthetic neon-lamp exposure with a known dispersion: 4096 pixels whose centres follow a
- * cubic from 350 nm (pixel 0) to 900 nm (pixel 4095), Gaussian lines of 0.4 nm FWHM rendered
+ * cubic from 460 nm (pixel 0) to 940 nm (pixel 4095), Gaussian lines of 0.4 nm FWHM rendered
  * into the pixels (each pixel receives the flux between its edges), a smooth baseline, a few
  * contaminating lines that are not in the lamp list, then Poisson and read noise.
  *
- * <p>The lamp lines are a realistic pattern, not reference values: the 59 Ne I air wavelengths
- * and relative intensities of an earlier version of the built-in lamp-ne-i.csv (attributed to
- * Sansonetti and Martin, J. Phys. Chem. Ref. Data 34, 1559 (2005)); 16 of them were later
- * dropped from that file because no independent check supports them (see
- * refdata/src/main/resources/org/ritzwerk/refdata/lamps/README.md). The tests here check that the
- * invented dispersion is recovered from this pattern, which needs realistic spacings and blends,
- * not exact wavelengths. The instrument, baseline, line strengths and contaminants are invented.
+ * <p>The lamp lines are the 43 rows of the built-in lamp-ne-i.csv (Ne I air wavelengths and
+ * relative intensities; Sansonetti and Martin, J. Phys. Chem. Ref. Data 34, 1559 (2005), from
+ * memory and checked row by row, see refdata/src/main/resources/org/ritzwerk/refdata/lamps/README.md),
+ * copied here because the engine's tests cannot read refdata. The detector sees 460 to 940 nm, where
+ * those rows lie. The tests check that the invented dispersion is recovered from this pattern; the
+ * instrument, baseline, line strengths and contaminants are invented.
  */
 final class LampScene {
 
@@ -30,24 +29,21 @@ final class LampScene {
 
     /** Ne I, air, nm, and the table's relative intensities (lamp-ne-i.csv). */
     static final double[] NEON_NM = {
-        336.99072, 352.04711, 453.77545, 470.43949, 470.88594, 471.00650, 471.20633, 471.5344, 478.89258,
-        482.7338, 488.49170, 534.10938, 540.05618, 576.44188, 585.24879, 588.18952, 602.99969, 607.43377,
-        614.30626, 616.35939, 621.72812, 626.64950, 633.44278, 638.29917, 640.2248, 650.65281, 659.89529,
-        692.94673, 702.40504, 703.24131, 705.91074, 717.39381, 724.51666, 748.88712, 753.57741, 754.40443,
-        794.31814, 813.64054, 826.60772, 830.03258, 837.76080, 841.84274, 849.53598, 859.12584, 863.46470,
-        865.43831, 865.55220, 867.94925, 868.19211, 877.16563, 878.06226, 878.37533, 885.38668, 886.57552,
-        914.86716, 920.17591, 930.08527, 932.65068, 966.54197};
+        470.88594, 482.7338, 540.05618, 585.24879, 588.18952, 602.99969, 607.43377, 614.30626, 616.35939,
+        621.72812, 626.64950, 633.44278, 638.29917, 640.2248, 650.65281, 659.89529, 692.94673, 702.40504,
+        703.24131, 705.91074, 717.39381, 724.51666, 748.88712, 794.31814, 813.64054, 826.60772, 830.03258,
+        841.84274, 849.53598, 859.12584, 863.46470, 865.43831, 867.94925, 868.19211, 877.16563, 878.06226,
+        878.37533, 885.38668, 886.57552, 914.86716, 920.17591, 930.08527, 932.65068};
     static final double[] NEON_INTENSITY = {
-        70, 100, 100, 150, 120, 100, 150, 150, 100, 100, 100, 100, 200, 70, 200, 100, 100, 100, 100, 100, 100, 100,
-        100, 100, 200, 150, 100, 1000, 300, 800, 100, 800, 800, 300, 300, 130, 80, 170, 70, 300, 800, 250, 700, 400,
-        350, 600, 80, 130, 150, 100, 600, 400, 300, 150, 120, 90, 80, 70, 180};
+        120, 100, 200, 200, 100, 100, 100, 100, 100, 100, 100, 100, 100, 200, 150, 100, 1000, 300, 800, 100, 800,
+        800, 300, 80, 170, 70, 300, 250, 700, 400, 350, 600, 130, 150, 100, 600, 400, 300, 150, 120, 90, 80, 70};
 
     static {
-        double c0 = 350;
-        double c1 = 0.145;
+        double c0 = 460;
+        double c1 = 0.13;
         double c3 = 1.0e-10;
         double last = PIXELS - 1;
-        double c2 = (900 - c0 - c1 * last - c3 * last * last * last) / (last * last);
+        double c2 = (940 - c0 - c1 * last - c3 * last * last * last) / (last * last);
         TRUTH = new double[] {c0, c1, c2, c3};
     }
 
@@ -73,7 +69,7 @@ final class LampScene {
         for (int k = 0; k < contaminantCount; k++) {
             double nm;
             do {
-                nm = 360 + 530 * random.nextDouble();
+                nm = 465 + 470 * random.nextDouble();
             } while (distanceToNearest(linesNm, nm) < 1.5);
             contaminants[k] = nm;
             contaminantIntensity[k] = 100 + 400 * random.nextDouble();
