@@ -96,7 +96,8 @@ final class CalibrateCommand implements Callable<Integer> {
     double threshold;
 
     @Option(names = "--saturation", paramLabel = "COUNTS",
-            description = "Counts at which the detector saturates; such peaks are flagged and left out of the fit.")
+            description = "Counts at which the detector saturates; such peaks are paired, flagged 'saturated' and "
+                    + "left out of the fit.")
     Double saturation;
 
     @Option(names = "--tolerance", paramLabel = "PIXELS", defaultValue = "3",
@@ -281,6 +282,14 @@ final class CalibrateCommand implements Callable<Integer> {
                     match.pixelSigma(i), calibration.pairLabel(i), solution.wavelengthAt(solution.pixel(i)),
                     solution.residualNm(i), solution.residualPixels(i), solution.isRejected(i) ? "rejected" : "");
         }
+        LampMatch saturatedPairs = calibration.saturatedPairs();
+        for (int i = 0; i < saturatedPairs.size(); i++) {
+            double p = saturatedPairs.pixel(i);
+            double residualNm = saturatedPairs.wavelength(i) - solution.wavelengthAt(p);
+            w.printf(Locale.ROOT, "%8.3f %8.3f %-28s %14.5f %11.5f %9.4f %s%n", p, saturatedPairs.pixelSigma(i),
+                    calibration.saturatedPairLabel(i), solution.wavelengthAt(p), residualNm,
+                    residualNm / Math.abs(solution.dispersionAt(p)), "saturated, not fitted");
+        }
         w.println();
         w.printf(Locale.ROOT, "%10s %14s %12s %12s%n", "pixel", "wavelength nm", "+- nm", "nm/pixel");
         for (double p : new double[] {0, (n - 1) / 4.0, (n - 1) / 2.0, 3 * (n - 1) / 4.0, n - 1}) {
@@ -289,8 +298,8 @@ final class CalibrateCommand implements Callable<Integer> {
         }
         int saturated = calibration.saturatedPeaks();
         if (saturated > 0) {
-            w.printf(Locale.ROOT, "%nNote: %d peak(s) reached the saturation level; their centroids come from the wings.%n",
-                    saturated);
+            w.printf(Locale.ROOT, "%nNote: %d peak(s) reached the saturation level; their centroids come from the wings"
+                    + " and %d paired one(s) were left out of the fit.%n", saturated, saturatedPairs.size());
         }
         w.flush();
     }
@@ -306,11 +315,20 @@ final class CalibrateCommand implements Callable<Integer> {
                 Table.Column.number("solution_nm", "solution nm", "%.5f"),
                 Table.Column.number("residual_nm", "resid nm", "%.5f"),
                 Table.Column.number("residual_pixels", "resid px", "%.4f"),
-                Table.Column.text("used", "used")));
+                Table.Column.text("used", "used"),
+                Table.Column.text("flag", "flag")));
         for (int i = 0; i < solution.size(); i++) {
             table.add(solution.pixel(i), match.pixelSigma(i), calibration.pairLabel(i), solution.wavelength(i),
                     solution.wavelengthAt(solution.pixel(i)), solution.residualNm(i), solution.residualPixels(i),
-                    solution.isRejected(i) ? "false" : "true");
+                    solution.isRejected(i) ? "false" : "true", solution.isRejected(i) ? "rejected" : "");
+        }
+        LampMatch saturatedPairs = calibration.saturatedPairs();
+        for (int i = 0; i < saturatedPairs.size(); i++) {
+            double p = saturatedPairs.pixel(i);
+            double residualNm = saturatedPairs.wavelength(i) - solution.wavelengthAt(p);
+            table.add(p, saturatedPairs.pixelSigma(i), calibration.saturatedPairLabel(i), saturatedPairs.wavelength(i),
+                    solution.wavelengthAt(p), residualNm, residualNm / Math.abs(solution.dispersionAt(p)), "false",
+                    "saturated");
         }
         return table;
     }

@@ -18,10 +18,12 @@ public final class Calibration {
     private final LampMatch firstMatch;
     private final LampMatch match;
     private final DispersionSolution solution;
+    private final LampMatch saturatedPairs;
     private final List<String> pairLabels;
 
     Calibration(CalibrationProblem problem, Calibrator settings, Peaks peaks, LampMatch firstMatch, LampMatch match,
-            DispersionSolution solution) {
+            LampMatch saturatedPairs, DispersionSolution solution) {
+        this.saturatedPairs = saturatedPairs;
         this.problem = problem;
         this.settings = settings;
         this.peaks = peaks;
@@ -58,6 +60,23 @@ public final class Calibration {
     /** @return the refined pairing the solution was fitted to, sorted by pixel */
     public LampMatch match() {
         return match;
+    }
+
+    /**
+     * @return the pairs whose peak reached the saturation level: paired with their lamp lines but
+     *         left out of the fit (their centroids come from the wings); empty when none, or when
+     *         too few unsaturated pairs remained and they were fitted after all
+     */
+    public LampMatch saturatedPairs() {
+        return saturatedPairs;
+    }
+
+    /**
+     * @param i a pair of {@link #saturatedPairs()}
+     * @return its lamp line as listed
+     */
+    public String saturatedPairLabel(int i) {
+        return problem.lamp().label(saturatedPairs.lineIndex(i));
     }
 
     /** @return the fitted pixel-to-wavelength solution */

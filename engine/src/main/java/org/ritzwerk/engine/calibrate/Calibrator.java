@@ -228,9 +228,23 @@ public final class Calibrator {
         DispersionFit fit = fit();
         LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, lamp.lines(),
                 lamp.speciesArray(), tolerance);
-        DispersionSolution solution = refined.fit(fit);
+        // Saturated peaks are centred from their wings: they are paired (and reported) but left
+        // out of the fit, unless too few pairs would remain for a straight line.
+        boolean[] unsaturated = new boolean[refined.size()];
+        int kept = 0;
+        for (int i = 0; i < refined.size(); i++) {
+            unsaturated[i] = !peaks.has(refined.peakIndex(i), PeakFlag.SATURATED);
+            kept += unsaturated[i] ? 1 : 0;
+        }
+        LampMatch fitted = kept == refined.size() || kept < LampMatcher.MIN_FEW_LINE_MATCHES ? refined
+                : refined.subset(unsaturated);
+        boolean[] saturatedOnly = new boolean[refined.size()];
+        for (int i = 0; i < saturatedOnly.length; i++) {
+            saturatedOnly[i] = fitted != refined && !unsaturated[i];
+        }
+        DispersionSolution solution = fitted.fit(fit);
         checkPlausible(problem, solution);
-        return new Calibration(problem, this, peaks, first, refined, solution);
+        return new Calibration(problem, this, peaks, first, fitted, refined.subset(saturatedOnly), solution);
     }
 
     /**

@@ -75,6 +75,40 @@ public final class LampMatch {
         return distinctHypotheses;
     }
 
+    /**
+     * @param keep per pair, whether to keep it
+     * @return the pairs kept, with the same figures
+     */
+    LampMatch subset(boolean[] keep) {
+        int m = 0;
+        for (boolean k : keep) {
+            m += k ? 1 : 0;
+        }
+        int[] pi = new int[m];
+        int[] li = new int[m];
+        double[] px = new double[m];
+        double[] ps = new double[m];
+        double[] nm = new double[m];
+        double[] ns = new double[m];
+        double[] r = new double[m];
+        int j = 0;
+        for (int i = 0; i < keep.length; i++) {
+            if (keep[i]) {
+                pi[j] = peakIndex[i];
+                li[j] = lineIndex[i];
+                px[j] = pixel[i];
+                ps[j] = pixelSigma[i];
+                nm[j] = wavelength[i];
+                ns[j] = wavelengthSigma[i];
+                r[j] = residualPixels[i];
+                j++;
+            }
+        }
+        return new LampMatch(pi, li, px, ps, nm, ns, lineSigmasGiven, r, strongPeaks, strongMatched, degree,
+                hypotheses, firstWavelength, lastWavelength, medium, chanceMatches, chanceProbability,
+                distinctHypotheses);
+    }
+
     /** @return the number of matched pairs */
     public int size() {
         return pixel.length;

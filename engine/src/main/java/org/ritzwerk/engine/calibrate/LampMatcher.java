@@ -18,7 +18,7 @@ import org.ritzwerk.medium.Medium;
  *
  * <p><b>Seeds.</b> The strongest {@code strongPeaks} peaks (by flux) and the strongest
  * {@code strongLines} lines within the prior's wavelength range (by relative intensity) are each
- * sorted by position. Every triplet of nearby peaks (the outer two at most four strong peaks
+ * sorted by position. Every triplet of nearby peaks (the outer two at most three strong peaks
  * apart) is compared with every triplet of nearby lines (the outer two at most
  * {@value #LINE_NEIGHBOURS} strong lines apart, in the order the dispersion's sign implies): the
  * ratio of the inner gap to the outer gap is invariant under a linear map, so a triplet pair whose
@@ -116,6 +116,8 @@ public final class LampMatcher {
     private static final int VERIFY_PASSES = 4;
     /** Pairs that offset, slope and curvature can always be made to meet; not evidence. */
     private static final int FITTED_PAIRS = 3;
+    /** Open strong peaks beyond each end of the pairs that growth looks at. */
+    private static final int FRONTIER = 3;
     /** Pairs at which a growth is compared with those already made. */
     private static final int MEMO_PAIRS = 4;
     /** Half-width, in tolerances, of the region over which the line density is counted. */
@@ -584,6 +586,9 @@ public final class LampMatcher {
                                         continue;
                                     }
                                     hypotheses++;
+                                    if (!neighbourAgrees(i, k, order[a], order[c], dispersion, sign)) {
+                                        continue;
+                                    }
                                     seedPeak[0] = i;
                                     seedPeak[1] = j;
                                     seedPeak[2] = k;
@@ -598,6 +603,36 @@ public final class LampMatcher {
                 }
             }
             return best;
+        }
+
+        /**
+         * A cheap test before growing a seed: the straight line through its outer pairs must put a
+         * lamp line near the strong peak just before or just after the seed, within the tolerance
+         * plus the bend a dispersion of slope change maxCurvature can make over that distance.
+         * A seed whose neighbours are both foreign lines dies here; the solution is also seeded
+         * elsewhere.
+         */
+        private boolean neighbourAgrees(int i, int k, int lineA, int lineC, double dispersion, int sign) {
+            double pixelA = strongPixel[i];
+            double nmA = windowNm[lineA];
+            double span = strongPixel[k] - pixelA;
+            if (i == 0 && k == strongPixel.length - 1) {
+                return true; // no neighbour to ask
+            }
+            for (int n : new int[] {i - 1, k + 1}) {
+                if (n < 0 || n >= strongPixel.length) {
+                    continue;
+                }
+                double gap = n < i ? pixelA - strongPixel[n] : strongPixel[n] - strongPixel[k];
+                double bend = maxCurvature * gap * (gap + span) / (2 * pixels);
+                double predicted = nmA + (strongPixel[n] - pixelA) * dispersion;
+                double widthNm = (tolerance + bend) * Math.abs(dispersion);
+                int l = lowerBound(predicted - widthNm);
+                if (l < windowNm.length && windowNm[l] <= predicted + widthNm) {
+                    return true;
+                }
+            }
+            return false;
         }
 
         private Candidate better(Candidate a, Candidate b) {
@@ -632,25 +667,45 @@ public final class LampMatcher {
                 int pick = -1;
                 int pickLine = -1;
                 double pickWidth = Double.POSITIVE_INFINITY;
+                // Only the frontier can hold the narrowest window: the open peaks between the
+                // paired ones, and the nearest few open peaks beyond each end (windows widen with
+                // the distance from the pairs).
+                int first = -1;
+                int last = -1;
                 for (int k = 0; k < np; k++) {
-                    if (lineOf[k] >= 0 || closed[k]) {
-                        continue;
+                    if (lineOf[k] >= 0) {
+                        first = first < 0 ? k : first;
+                        last = k;
                     }
-                    double x = (strongPixel[k] - mid) / half;
-                    double slopeNm = polynomial.derivative(x) / half;
-                    if (!(slopeNm * sign > 0)) {
-                        closed[k] = true; // the polynomial folds here: no prediction
-                        continue;
-                    }
-                    double predicted = polynomial.value(x);
-                    double widthNm = tolerance * Math.abs(slopeNm) + 3 * polynomial.sigma(x);
-                    int only = onlyFreeLine(predicted, widthNm, lineOf);
-                    if (only == NONE) {
-                        closed[k] = true; // no lamp line can be this peak: a foreign line or a ghost
-                    } else if (only >= 0 && widthNm / Math.abs(slopeNm) < pickWidth) {
-                        pick = k;
-                        pickLine = only;
-                        pickWidth = widthNm / Math.abs(slopeNm);
+                }
+                for (int side = 0; side < 3; side++) {
+                    int k = side == 0 ? first : side == 1 ? first - 1 : last + 1;
+                    int step = side == 1 ? -1 : 1;
+                    int end = side == 0 ? last : side == 1 ? -1 : np;
+                    int beyond = 0;
+                    for (; k != end && (side == 0 ? k <= last : beyond < FRONTIER); k += step) {
+                        if (lineOf[k] >= 0 || closed[k]) {
+                            continue;
+                        }
+                        if (side != 0) {
+                            beyond++;
+                        }
+                        double x = (strongPixel[k] - mid) / half;
+                        double slopeNm = polynomial.derivative(x) / half;
+                        if (!(slopeNm * sign > 0)) {
+                            closed[k] = true; // the polynomial folds here: no prediction
+                            continue;
+                        }
+                        double predicted = polynomial.value(x);
+                        double widthNm = tolerance * Math.abs(slopeNm) + 3 * polynomial.sigma(x);
+                        int only = onlyFreeLine(predicted, widthNm, lineOf);
+                        if (only == NONE) {
+                            closed[k] = true; // no lamp line can be this peak: a foreign line or a ghost
+                        } else if (only >= 0 && widthNm / Math.abs(slopeNm) < pickWidth) {
+                            pick = k;
+                            pickLine = only;
+                            pickWidth = widthNm / Math.abs(slopeNm);
+                        }
                     }
                 }
                 if (pick < 0) {
@@ -668,9 +723,9 @@ public final class LampMatcher {
                     return null;
                 }
             }
-            // A growth that stopped at a few pairs, or at well under half of the best growth so
+            // A growth that stopped at a few pairs, or at under half of the best growth so
             // far, cannot win: not worth verifying.
-            if (pairs < Math.min(MIN_MATCHES, window.length) || 2 * pairs < mostPairs) {
+            if (pairs < Math.min(MIN_MATCHES, window.length) || pairs < 0.5 * mostPairs) {
                 return null;
             }
             mostPairs = Math.max(mostPairs, pairs);

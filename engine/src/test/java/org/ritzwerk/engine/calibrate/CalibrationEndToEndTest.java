@@ -138,6 +138,21 @@ class CalibrationEndToEndTest {
                 .fit(DispersionFit.ofDegree(3));
         double rms = rmsPixelsFromTruth(solution);
         assertTrue(rms < 0.05, "RMS from the truth: " + rms + " px");
+        // The job pairs the saturated peaks, lists them and leaves them out of the fit.
+        Calibration calibration = Calibrator.defaults().withSaturationLevel(level).calibrate(
+                CalibrationProblem.builder(counts).lamp(LampSet.of(java.util.List.of(CalibratorTest.neonList(Medium.air())),
+                        Medium.air())).build());
+        LampMatch left = calibration.saturatedPairs();
+        assertTrue(left.size() >= 1, "saturated pairs " + left.size());
+        for (int i = 0; i < left.size(); i++) {
+            assertTrue(calibration.peaks().has(left.peakIndex(i), PeakFlag.SATURATED));
+        }
+        LampMatch fitted = calibration.match();
+        for (int i = 0; i < fitted.size(); i++) {
+            assertTrue(!calibration.peaks().has(fitted.peakIndex(i), PeakFlag.SATURATED), "pair " + i + " is saturated");
+        }
+        assertEquals(fitted.size(), calibration.solution().size());
+        assertTrue(rmsPixelsFromTruth(calibration.solution()) < 0.05);
     }
 
     @Test
