@@ -148,7 +148,7 @@ final class CalibrateCommand implements Callable<Integer> {
                 spec.commandLine().getOut().flush();
                 break;
             case csv:
-                pairs(calibration).write(spec.commandLine().getOut(), format);
+                pairs(calibration, spec.commandLine().getOut(), format);
                 break;
             default:
                 report(spectrum, calibration);
@@ -295,7 +295,7 @@ final class CalibrateCommand implements Callable<Integer> {
         w.flush();
     }
 
-    private static Table pairs(Calibration calibration) {
+    private static void pairs(Calibration calibration, PrintWriter out, Table.Format format) {
         DispersionSolution solution = calibration.solution();
         LampMatch match = calibration.match();
         Table table = new Table(List.of(
@@ -306,13 +306,13 @@ final class CalibrateCommand implements Callable<Integer> {
                 Table.Column.number("solution_nm", "solution nm", "%.5f"),
                 Table.Column.number("residual_nm", "resid nm", "%.5f"),
                 Table.Column.number("residual_pixels", "resid px", "%.4f"),
-                Table.Column.text("used", "used")));
+                Table.Column.text("used", "used")), out, format);
         for (int i = 0; i < solution.size(); i++) {
             table.add(solution.pixel(i), match.pixelSigma(i), calibration.pairLabel(i), solution.wavelength(i),
                     solution.wavelengthAt(solution.pixel(i)), solution.residualNm(i), solution.residualPixels(i),
                     solution.isRejected(i) ? "false" : "true");
         }
-        return table;
+        table.finish();
     }
 
     private void drawResiduals(OutputFiles.Batch batch, DispersionSolution solution) throws IOException {

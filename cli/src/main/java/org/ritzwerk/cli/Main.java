@@ -1,5 +1,7 @@
 package org.ritzwerk.cli;
 
+import java.io.BufferedWriter;
+import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
 import java.util.List;
 import picocli.CommandLine;
@@ -12,7 +14,10 @@ public final class Main {
 
     /** @param args command-line arguments */
     public static void main(String[] args) {
-        System.exit(run(new PrintWriter(System.out, true), new PrintWriter(System.err, true), args));
+        // Standard output is buffered and flushed at the end (and by commands where it matters), not
+        // after every line: a table of millions of rows would otherwise cost a system call a row.
+        PrintWriter out = new PrintWriter(new BufferedWriter(new OutputStreamWriter(System.out), 1 << 16), false);
+        System.exit(run(out, new PrintWriter(System.err, true), args));
     }
 
     /**
