@@ -2,6 +2,7 @@ package org.ritzwerk.engine.hydrogenic;
 
 import java.util.Locale;
 import java.util.Objects;
+import java.util.function.DoubleConsumer;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.quantity.SpectralQuantity;
 
@@ -75,9 +76,25 @@ public final class HydrogenLikeLines {
      * @return every fine-structure component with upper n &lt;= nMax in the window, by frequency
      */
     public LineTable components(int nMax, double minHertz, double maxHertz) {
+        return components(nMax, minHertz, maxHertz, fraction -> { });
+    }
+
+    /**
+     * As {@link #components(int, double, double)}, telling {@code progress} the fraction done (0 to
+     * 1, by upper shell, weighted by the shell's size) so that a long run at large n can show it.
+     *
+     * @param nMax     highest upper principal quantum number, 1 to {@link #MAX_N}
+     * @param minHertz lower end of the window (vacuum frequency, Hz), not negative
+     * @param maxHertz upper end of the window (Hz), above {@code minHertz}
+     * @param progress told the fraction done after each upper shell; may be a no-op
+     * @return every fine-structure component with upper n &lt;= nMax in the window, by frequency
+     */
+    public LineTable components(int nMax, double minHertz, double maxHertz, DoubleConsumer progress) {
         checkWindow(nMax, minHertz, maxHertz);
+        Objects.requireNonNull(progress, "progress");
         LineTable.Builder lines = new LineTable.Builder();
         for (int nU = 1; nU <= nMax; nU++) {
+            progress.accept(done(nU - 1, nMax));
             for (int nL = 1; nL <= nU; nL++) {
                 if (outside(nU, nL, minHertz, maxHertz)) {
                     continue;
@@ -85,6 +102,7 @@ public final class HydrogenLikeLines {
                 addComponents(nU, nL, minHertz, maxHertz, lines);
             }
         }
+        progress.accept(1);
         return LineTable.sorted(lines, model.nucleus().z());
     }
 
@@ -119,9 +137,25 @@ public final class HydrogenLikeLines {
      * @return every n -> n' multiplet (n' &lt; n &lt;= nMax) whose blended frequency is in the window
      */
     public LineTable multiplets(int nMax, double minHertz, double maxHertz) {
+        return multiplets(nMax, minHertz, maxHertz, fraction -> { });
+    }
+
+    /**
+     * As {@link #multiplets(int, double, double)}, telling {@code progress} the fraction done.
+     *
+     * @param nMax     highest upper principal quantum number, 1 to {@link #MAX_N}
+     * @param minHertz lower end of the window (Hz)
+     * @param maxHertz upper end of the window (Hz)
+     * @param progress told the fraction done (0 to 1, by upper shell, weighted by the shell's size)
+     *                 after each upper shell; may be a no-op
+     * @return every n -> n' multiplet (n' &lt; n &lt;= nMax) whose blended frequency is in the window
+     */
+    public LineTable multiplets(int nMax, double minHertz, double maxHertz, DoubleConsumer progress) {
         checkWindow(nMax, minHertz, maxHertz);
+        Objects.requireNonNull(progress, "progress");
         LineTable.Builder lines = new LineTable.Builder();
         for (int nU = 2; nU <= nMax; nU++) {
+            progress.accept(done(nU - 1, nMax));
             for (int nL = 1; nL < nU; nL++) {
                 if (outside(nU, nL, minHertz, maxHertz)) {
                     continue;
@@ -144,6 +178,7 @@ public final class HydrogenLikeLines {
                 }
             }
         }
+        progress.accept(1);
         return LineTable.sorted(lines, model.nucleus().z());
     }
 
@@ -295,6 +330,15 @@ public final class HydrogenLikeLines {
         double b = n > 1 ? model.energy(n, 1, 1) : a;
         double c = model.energy(n, n - 1, 2 * n - 1);
         return new double[] {Math.min(a, Math.min(b, c)), Math.max(a, Math.max(b, c))};
+    }
+
+    /**
+     * The share of the work done after the upper shells 1 to n: shell n pairs with n lower shells
+     * of up to n levels each, so the work up to n grows about as n^3.
+     */
+    private static double done(int n, int nMax) {
+        double f = (double) n / nMax;
+        return f * f * f;
     }
 
     private static void checkWindow(int nMax, double minHertz, double maxHertz) {
