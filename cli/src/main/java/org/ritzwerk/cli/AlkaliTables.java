@@ -54,9 +54,12 @@ final class AlkaliTables {
         }
     }
 
-    /** The transition table: one row, with both states' lifetimes. */
+    /**
+     * The transition table: one row, with both states' lifetimes. The row is computed (which can
+     * take a while at high n) while {@code working} runs, which is closed before anything is written.
+     */
     static void transition(AlkaliAtom atom, State a, State b, double temperature, PrintWriter out,
-            Table.Format format) {
+            Table.Format format, Progress.Running working) {
         if (!AlkaliLines.isElectricDipole(a, b)) {
             throw new IllegalArgumentException("--transition: " + a.notation() + " and " + b.notation()
                     + " are not joined by an electric-dipole line (needs Delta l = 1, Delta j <= 1)");
@@ -66,6 +69,15 @@ final class AlkaliTables {
         State lower = aUpper ? b : a;
         AlkaliLines.Line line = AlkaliLines.line(atom, upper,
                 lower);
+        double vacuum = PhysicalConstants.C / line.frequency();
+        boolean lowerIsGround = lower.equals(atom.groundState());
+        Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequency(), vacuum * 1e9,
+            air(vacuum) * 1e9, line.frequency() / PhysicalConstants.C / 100, atom.reducedDipole(upper, lower),
+            line.einsteinA(), line.oscillatorStrength(), atom.radiativeLifetime(upper),
+            atom.effectiveLifetime(upper, temperature),
+            lowerIsGround ? null : atom.radiativeLifetime(lower),
+            lowerIsGround ? null : atom.effectiveLifetime(lower, temperature), temperature};
+        working.close();
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),
@@ -82,14 +94,7 @@ final class AlkaliTables {
                 Table.Column.number("lower_lifetime_s", "tau_l s", "%.4e"),
                 Table.Column.number("lower_effective_lifetime_s", "tau_l(T) s", "%.4e"),
                 Table.Column.number("temperature_k", "T K", "%.1f")), out, format);
-        double vacuum = PhysicalConstants.C / line.frequency();
-        boolean lowerIsGround = lower.equals(atom.groundState());
-        table.add(atom.species().notation(), upper.notation(), lower.notation(), line.frequency(), vacuum * 1e9,
-                air(vacuum) * 1e9, line.frequency() / PhysicalConstants.C / 100, atom.reducedDipole(upper, lower),
-                line.einsteinA(), line.oscillatorStrength(), atom.radiativeLifetime(upper),
-                atom.effectiveLifetime(upper, temperature),
-                lowerIsGround ? null : atom.radiativeLifetime(lower),
-                lowerIsGround ? null : atom.effectiveLifetime(lower, temperature), temperature);
+        table.add(row);
         table.finish();
     }
 

@@ -154,7 +154,12 @@ final class IdentifyCommand implements Callable<Integer> {
         if (searchOffset != null) {
             search = search.withOffsetSearch(searchOffset * 1e-9);
         }
-        Candidates candidates = candidates(search.candidateWindow(peaks));
+        Candidates candidates;
+        // Line generation at large --n-max can take minutes: show a sign of life on a terminal.
+        try (Progress.Running running = Progress.ticking(spec.commandLine().getErr(),
+                "identify: computing the candidate lines")) {
+            candidates = candidates(search.candidateWindow(peaks));
+        }
         IdentificationSearch.Report report = search.run(peaks, candidates.catalog());
         if (plasma) {
             plasma(read, report, candidates);

@@ -96,9 +96,15 @@ final class LevelsCommand implements Callable<Integer> {
         if (lMax < 0 || lMax > 50) {
             throw new IllegalArgumentException("--l-max must be 0 to 50, got " + lMax);
         }
-        Table table = new Table(columns, spec.commandLine().getOut(), format);
         double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
         Ions.Atoms atoms = ions.resolveAtoms(data.context());
+        if (lifetimes) {
+            WorkEstimate.hydrogenLifetimes(nMax, atoms.ions().size()).ifPresent(note -> {
+                spec.commandLine().getErr().println(note);
+                spec.commandLine().getErr().flush();
+            });
+        }
+        Table table = new Table(columns, spec.commandLine().getOut(), format);
         for (Ions.Ion ion : atoms.ions()) {
             // One shell at a time, so that memory does not grow with --n-max (about 4 million
             // levels at n = 2000); the ground level lies in shell 1.

@@ -178,14 +178,16 @@ final class LinesCommand implements Callable<Integer> {
         if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {
             throw new IllegalArgumentException("--from and --to are the same position; give a window");
         }
+        double lowHz = Math.min(one.toFrequency().inHertz(), two.toFrequency().inHertz());
+        double highHz = Math.max(one.toFrequency().inHertz(), two.toFrequency().inHertz());
         List<Source> sources = new ArrayList<>();
         for (Ions.Ion ion : atoms.ions()) {
             HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
-            LineTable table = multiplets ? generator.multiplets(nMax, one, two) : generator.components(nMax, one, two);
+            Progress progress = Progress.on(spec.commandLine().getErr(), "lines: " + ion.species().notation());
+            LineTable table = multiplets ? generator.multiplets(nMax, lowHz, highHz, progress)
+                    : generator.components(nMax, lowHz, highHz, progress);
             sources.add(new Source(ion.species().notation(), ion.model().tier().id(), table, minA));
         }
-        double lowHz = Math.min(one.toFrequency().inHertz(), two.toFrequency().inHertz());
-        double highHz = Math.max(one.toFrequency().inHertz(), two.toFrequency().inHertz());
         for (AlkaliAtom atom : atoms.alkalis()) {
             Progress progress = Progress.on(spec.commandLine().getErr(), "lines: " + atom.species().notation());
             sources.add(new Source(atom.species().notation(),
@@ -259,7 +261,12 @@ final class LinesCommand implements Callable<Integer> {
         AlkaliAtom atom = atoms.alkalis().get(0);
         if (transition != null) {
             State[] pair = AlkaliTables.pair(transition);
-            AlkaliTables.transition(atom, pair[0], pair[1], temperature, spec.commandLine().getOut(), format);
+            // Both states' lifetimes sum over many states at high n: show a sign of life.
+            try (Progress.Running running = Progress.ticking(spec.commandLine().getErr(), "lines: "
+                    + atom.species().notation() + " " + transition + ": rates and lifetimes")) {
+                AlkaliTables.transition(atom, pair[0], pair[1], temperature, spec.commandLine().getOut(), format,
+                        running);
+            }
         } else {
             AlkaliTables.ladder(atom, AlkaliTables.ladder(ladder), spec.commandLine().getOut(), format);
         }
