@@ -4,7 +4,6 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.StringWriter;
 import java.nio.ByteBuffer;
-import java.nio.charset.CharacterCodingException;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -453,25 +452,44 @@ final class TabularFiles {
      */
     static String decodeStrict(byte[] bytes, String source) {
         ByteBuffer buffer = ByteBuffer.wrap(bytes);
-        try {
-            return withoutByteOrderMark(StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
-                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(buffer).toString());
-        } catch (CharacterCodingException e) {
-            // The decoder stops with the buffer at the first bad byte: name its line and column.
-            int at = Math.min(buffer.position(), bytes.length);
-            int line = 1;
-            int lineStart = 0;
-            for (int i = 0; i < at; i++) {
-                if (bytes[i] == '\n') {
-                    line++;
-                    lineStart = i + 1;
-                }
+        // Checked through a small buffer of characters, then made a string once: decoding into one
+        // buffer of the whole text would need twice the file's size in characters besides.
+        java.nio.charset.CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
+                .onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT);
+        java.nio.CharBuffer chunk = java.nio.CharBuffer.allocate(8192);
+        boolean valid;
+        while (true) {
+            java.nio.charset.CoderResult result = decoder.decode(buffer, chunk, true);
+            if (result.isUnderflow()) {
+                result = decoder.flush(chunk);
             }
-            int column = new String(bytes, lineStart, at - lineStart, StandardCharsets.UTF_8).length() + 1;
-            throw new DataFileException(DataFileException.INVALID, source, List.of(new DataProblem(source, line, column,
-                    "data.not-utf8", String.format(Locale.ROOT, "byte 0x%02X is not valid UTF-8 text here",
-                            bytes[at] & 0xff), "")), "");
+            if (result.isError()) {
+                valid = false;
+                break;
+            }
+            if (result.isUnderflow()) {
+                valid = true;
+                break;
+            }
+            chunk.clear();
         }
+        if (valid) {
+            return withoutByteOrderMark(new String(bytes, StandardCharsets.UTF_8));
+        }
+        // The decoder stops with the buffer at the first bad byte: name its line and column.
+        int at = Math.min(buffer.position(), bytes.length);
+        int line = 1;
+        int lineStart = 0;
+        for (int i = 0; i < at; i++) {
+            if (bytes[i] == '\n') {
+                line++;
+                lineStart = i + 1;
+            }
+        }
+        int column = new String(bytes, lineStart, at - lineStart, StandardCharsets.UTF_8).length() + 1;
+        throw new DataFileException(DataFileException.INVALID, source, List.of(new DataProblem(source, line, column,
+                "data.not-utf8", String.format(Locale.ROOT, "byte 0x%02X is not valid UTF-8 text here",
+                        bytes[at] & 0xff), "")), "");
     }
 
     /**
