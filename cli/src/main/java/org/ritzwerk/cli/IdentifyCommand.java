@@ -154,11 +154,13 @@ final class IdentifyCommand implements Callable<Integer> {
         if (searchOffset != null) {
             search = search.withOffsetSearch(searchOffset * 1e-9);
         }
-        Candidates candidates;
         // Line generation at large --n-max can take minutes: show a sign of life on a terminal.
-        try (Progress.Running running = Progress.ticking(spec.commandLine().getErr(),
-                "identify: computing the candidate lines")) {
+        Progress.Running running = Progress.ticking(spec.commandLine().getErr(), "identify: computing the candidate lines");
+        Candidates candidates;
+        try {
             candidates = candidates(search.candidateWindow(peaks));
+        } finally {
+            running.close();
         }
         IdentificationSearch.Report report = search.run(peaks, candidates.catalog());
         if (plasma) {

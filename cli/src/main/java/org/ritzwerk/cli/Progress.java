@@ -14,6 +14,9 @@ import java.util.function.DoubleConsumer;
  */
 final class Progress implements DoubleConsumer {
 
+    /** Whether standard error is a terminal, found once. */
+    private static final boolean TERMINAL = standardErrorIsTerminal();
+
     private final PrintWriter err;
     private final String what;
     private final boolean shown;
@@ -32,7 +35,7 @@ final class Progress implements DoubleConsumer {
      * @return a progress line on a terminal, or one that shows nothing
      */
     static Progress on(PrintWriter err, String what) {
-        return new Progress(err, what, System.console() != null);
+        return new Progress(err, what, TERMINAL);
     }
 
     @Override
@@ -50,6 +53,20 @@ final class Progress implements DoubleConsumer {
             err.println();
         }
         err.flush();
+    }
+
+    /**
+     * @return whether standard error is a terminal: on Linux from what file descriptor 2 is (so
+     *         that {@code ritzwerk lines ... > lines.csv} still shows progress), elsewhere whether
+     *         the JVM has a console (standard input and output both terminals)
+     */
+    private static boolean standardErrorIsTerminal() {
+        try {
+            String target = java.nio.file.Files.readSymbolicLink(java.nio.file.Path.of("/proc/self/fd/2")).toString();
+            return target.startsWith("/dev/pts/") || target.startsWith("/dev/tty");
+        } catch (java.io.IOException | UnsupportedOperationException | SecurityException e) {
+            return System.console() != null;
+        }
     }
 
     /**
@@ -100,7 +117,7 @@ final class Progress implements DoubleConsumer {
      * @return the running line, to close when the work is done
      */
     static Running ticking(PrintWriter err, String what) {
-        if (System.console() == null) {
+        if (!TERMINAL) {
             return () -> { };
         }
         long begin = System.nanoTime();
