@@ -81,7 +81,9 @@ public final class HydrogenLikeLines {
 
     /**
      * As {@link #components(int, double, double)}, telling {@code progress} the fraction done (0 to
-     * 1, by upper shell, weighted by the shell's size) so that a long run at large n can show it.
+     * 1, after each upper shell) so that a long run at large n can show it. The share of a shell
+     * pair n, n' in the window is taken as n'^2 (n + n') + 1 (about n' radial integrals, each of
+     * about n' terms of numbers that grow with n + n'); pairs outside the window count 1.
      *
      * @param nMax     highest upper principal quantum number, 1 to {@link #MAX_N}
      * @param minHertz lower end of the window (vacuum frequency, Hz), not negative
@@ -92,9 +94,10 @@ public final class HydrogenLikeLines {
     public LineTable components(int nMax, double minHertz, double maxHertz, DoubleConsumer progress) {
         checkWindow(nMax, minHertz, maxHertz);
         Objects.requireNonNull(progress, "progress");
+        double[] done = shares(nMax, minHertz, maxHertz, true);
         LineTable.Builder lines = new LineTable.Builder();
         for (int nU = 1; nU <= nMax; nU++) {
-            progress.accept(done(nU - 1, nMax));
+            progress.accept(done[nU - 1]);
             for (int nL = 1; nL <= nU; nL++) {
                 if (outside(nU, nL, minHertz, maxHertz)) {
                     continue;
@@ -146,16 +149,18 @@ public final class HydrogenLikeLines {
      * @param nMax     highest upper principal quantum number, 1 to {@link #MAX_N}
      * @param minHertz lower end of the window (Hz)
      * @param maxHertz upper end of the window (Hz)
-     * @param progress told the fraction done (0 to 1, by upper shell, weighted by the shell's size)
-     *                 after each upper shell; may be a no-op
+     * @param progress told the fraction done (0 to 1, weighted as in
+     *                 {@link #components(int, double, double, DoubleConsumer)}) after each upper
+     *                 shell; may be a no-op
      * @return every n -> n' multiplet (n' &lt; n &lt;= nMax) whose blended frequency is in the window
      */
     public LineTable multiplets(int nMax, double minHertz, double maxHertz, DoubleConsumer progress) {
         checkWindow(nMax, minHertz, maxHertz);
         Objects.requireNonNull(progress, "progress");
+        double[] done = shares(nMax, minHertz, maxHertz, false);
         LineTable.Builder lines = new LineTable.Builder();
         for (int nU = 2; nU <= nMax; nU++) {
-            progress.accept(done(nU - 1, nMax));
+            progress.accept(done[nU - 1]);
             for (int nL = 1; nL < nU; nL++) {
                 if (outside(nU, nL, minHertz, maxHertz)) {
                     continue;
@@ -316,12 +321,15 @@ public final class HydrogenLikeLines {
 
     /** Whether every line n -> n' surely lies outside the window (bounds from the shells' extreme levels). */
     private boolean outside(int nU, int nL, double minHertz, double maxHertz) {
-        double[] upper = shellBounds(nU);
-        double[] lower = shellBounds(nL);
+        return outside(shellBounds(nU), shellBounds(nL), nU == nL, minHertz, maxHertz);
+    }
+
+    private static boolean outside(double[] upper, double[] lower, boolean sameShell, double minHertz,
+            double maxHertz) {
         double low = (upper[0] - lower[1]) / PhysicalConstants.H;
         double high = (upper[1] - lower[0]) / PhysicalConstants.H;
         double margin = 0.01 * Math.abs(high - low) + 1e-9 * Math.abs(high);
-        return high + margin < minHertz || Math.max(low, 0) - margin > maxHertz || nU == nL && high <= 0;
+        return high + margin < minHertz || Math.max(low, 0) - margin > maxHertz || sameShell && high <= 0;
     }
 
     /** {lowest, highest} binding energy in shell n among s1/2, p1/2 and the top j. */
@@ -333,12 +341,28 @@ public final class HydrogenLikeLines {
     }
 
     /**
-     * The share of the work done after the upper shells 1 to n: shell n pairs with n lower shells
-     * of up to n levels each, so the work up to n grows about as n^3.
+     * @return element n: the share of the work done after the upper shells 1 to n (0 for n = 0),
+     *         each pair of shells in the window weighted by n'^2 (n + n') + 1, each pair outside by 1
      */
-    private static double done(int n, int nMax) {
-        double f = (double) n / nMax;
-        return f * f * f;
+    private double[] shares(int nMax, double minHertz, double maxHertz, boolean sameShell) {
+        double[][] bounds = new double[nMax + 1][];
+        for (int n = 1; n <= nMax; n++) {
+            bounds[n] = shellBounds(n);
+        }
+        double[] done = new double[nMax + 1];
+        for (int nU = 1; nU <= nMax; nU++) {
+            double shell = 0;
+            for (int nL = 1; nL < nU || sameShell && nL == nU; nL++) {
+                shell += outside(bounds[nU], bounds[nL], nU == nL, minHertz, maxHertz) ? 1
+                        : (double) nL * nL * (nU + nL) + 1;
+            }
+            done[nU] = done[nU - 1] + shell;
+        }
+        double total = done[nMax];
+        for (int n = 0; n <= nMax; n++) {
+            done[n] = total > 0 ? done[n] / total : 1;
+        }
+        return done;
     }
 
     private static void checkWindow(int nMax, double minHertz, double maxHertz) {
