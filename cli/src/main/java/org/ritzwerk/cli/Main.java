@@ -14,9 +14,11 @@ public final class Main {
 
     /** @param args command-line arguments */
     public static void main(String[] args) {
-        // Standard output is buffered and flushed at the end (and by commands where it matters), not
-        // after every line: a table of millions of rows would otherwise cost a system call a row.
-        PrintWriter out = new PrintWriter(new BufferedWriter(new OutputStreamWriter(System.out), 1 << 16), false);
+        // Standard output into a file or pipe is buffered and flushed at the end, not after every
+        // line: a table of millions of rows would otherwise cost a system call a row. On a terminal
+        // each line shows at once, as a person reads along.
+        PrintWriter out = new PrintWriter(new BufferedWriter(new OutputStreamWriter(System.out), 1 << 16),
+                System.console() != null);
         System.exit(run(out, new PrintWriter(System.err, true), args));
     }
 

@@ -6,8 +6,9 @@ import java.util.function.DoubleConsumer;
 
 /**
  * Progress of long work on standard error, shown only on a terminal (a pipe or a file gets
- * nothing, so logs stay clean). Updates at most ten times a second, with the time taken and, once
- * a few per cent are done, an estimate of the time left (from the rate so far). Work whose share
+ * nothing, so logs stay clean), from one second on (quick work shows nothing). Updates at most ten
+ * times a second, with the time taken and, once a few per cent are done, an estimate of the time
+ * left (from the rate so far). Work whose share
  * done is unknown gets a {@link #ticking} line with the time taken. Ctrl-C stops the work: the
  * output files of a command are written under temporary names and removed (see the refdata
  * OutputFiles), so nothing half-written is left.
@@ -44,6 +45,9 @@ final class Progress implements DoubleConsumer {
             return;
         }
         long now = System.nanoTime();
+        if (lastShown == 0 && (fraction >= 1 || now - start < 1_000_000_000L)) {
+            return;     // work done within a second shows nothing
+        }
         if (fraction < 1 && now - lastShown < 100_000_000L) {
             return;
         }
