@@ -13,7 +13,6 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import java.util.SplittableRandom;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Test;
@@ -68,9 +67,14 @@ class BoundedMemoryTest {
             w.write("# ritzwerk-peaks 1\n# id: many-peaks\n# title: a million invented peaks\n"
                     + "# source: BoundedMemoryTest\n# provenance: measured\n# version: 1\n# position-unit: nm\n"
                     + "# medium: vacuum\nposition,uncertainty,intensity,width,note\n");
+            StringBuilder row = new StringBuilder();
             for (int i = 0; i < 1_000_000; i++) {
-                w.write(String.format(Locale.ROOT, "%.6f,0.002,%d,0.05,\n", 400 + 300 * random.nextDouble(),
-                        1 + random.nextInt(1000)));
+                int micro = random.nextInt(300_000_000);     // 400 to 700 nm in steps of 1e-6 nm
+                String fraction = Integer.toString(1_000_000 + micro % 1_000_000).substring(1);
+                row.setLength(0);
+                row.append(400 + micro / 1_000_000).append('.').append(fraction).append(",0.002,")
+                        .append(1 + random.nextInt(1000)).append(",0.05,\n");
+                w.append(row);
             }
         }
         Outcome run = runChild(folder, "identify", peaks.toString(), "--species", "H I", "--format", "csv");
