@@ -1,5 +1,6 @@
 package org.ritzwerk.cli;
 
+import java.io.PrintWriter;
 import java.util.List;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
@@ -53,8 +54,12 @@ final class AlkaliTables {
         }
     }
 
-    /** The transition table: one row, with both states' lifetimes. */
-    static Table transition(AlkaliAtom atom, State a, State b, double temperature) {
+    /**
+     * The transition table: one row, with both states' lifetimes. The row is computed (which can
+     * take a while at high n) while {@code working} runs, which is closed before anything is written.
+     */
+    static void transition(AlkaliAtom atom, State a, State b, double temperature, PrintWriter out,
+            Table.Format format, Progress.Running working) {
         if (!AlkaliLines.isElectricDipole(a, b)) {
             throw new IllegalArgumentException("--transition: " + a.notation() + " and " + b.notation()
                     + " are not joined by an electric-dipole line (needs Delta l = 1, Delta j <= 1)");
@@ -64,6 +69,15 @@ final class AlkaliTables {
         State lower = aUpper ? b : a;
         AlkaliLines.Line line = AlkaliLines.line(atom, upper,
                 lower);
+        double vacuum = PhysicalConstants.C / line.frequency();
+        boolean lowerIsGround = lower.equals(atom.groundState());
+        Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequency(), vacuum * 1e9,
+            air(vacuum) * 1e9, line.frequency() / PhysicalConstants.C / 100, atom.reducedDipole(upper, lower),
+            line.einsteinA(), line.oscillatorStrength(), atom.radiativeLifetime(upper),
+            atom.effectiveLifetime(upper, temperature),
+            lowerIsGround ? null : atom.radiativeLifetime(lower),
+            lowerIsGround ? null : atom.effectiveLifetime(lower, temperature), temperature};
+        working.close();
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),
@@ -79,20 +93,13 @@ final class AlkaliTables {
                 Table.Column.number("upper_effective_lifetime_s", "tau_u(T) s", "%.4e"),
                 Table.Column.number("lower_lifetime_s", "tau_l s", "%.4e"),
                 Table.Column.number("lower_effective_lifetime_s", "tau_l(T) s", "%.4e"),
-                Table.Column.number("temperature_k", "T K", "%.1f")));
-        double vacuum = PhysicalConstants.C / line.frequency();
-        boolean lowerIsGround = lower.equals(atom.groundState());
-        table.add(atom.species().notation(), upper.notation(), lower.notation(), line.frequency(), vacuum * 1e9,
-                air(vacuum) * 1e9, line.frequency() / PhysicalConstants.C / 100, atom.reducedDipole(upper, lower),
-                line.einsteinA(), line.oscillatorStrength(), atom.radiativeLifetime(upper),
-                atom.effectiveLifetime(upper, temperature),
-                lowerIsGround ? null : atom.radiativeLifetime(lower),
-                lowerIsGround ? null : atom.effectiveLifetime(lower, temperature), temperature);
-        return table;
+                Table.Column.number("temperature_k", "T K", "%.1f")), out, format);
+        table.add(row);
+        table.finish();
     }
 
     /** The ladder table: the two steps' wavelengths. */
-    static Table ladder(AlkaliAtom atom, State[] states) {
+    static void ladder(AlkaliAtom atom, State[] states, PrintWriter out, Table.Format format) {
         LadderExcitation ladder = atom.ladder(states[0], states[1], states[2]);
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
@@ -101,12 +108,12 @@ final class AlkaliTables {
                 Table.Column.text("to", "to"),
                 Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.6f"),
                 Table.Column.number("air_wavelength_nm", "air nm", "%.6f"),
-                Table.Column.number("frequency_hz", "Hz", "%.9e")));
+                Table.Column.number("frequency_hz", "Hz", "%.9e")), out, format);
         table.add(atom.species().notation(), "1", states[0].notation(), states[1].notation(),
                 ladder.firstVacuumMetres() * 1e9, air(ladder.firstVacuumMetres()) * 1e9, ladder.firstHz());
         table.add(atom.species().notation(), "2", states[1].notation(), states[2].notation(),
                 ladder.secondVacuumMetres() * 1e9, air(ladder.secondVacuumMetres()) * 1e9, ladder.secondHz());
-        return table;
+        table.finish();
     }
 
     /** Standard-air wavelength in metres, NaN (null in output) outside the air model. */

@@ -149,7 +149,7 @@ final class CalibrateCommand implements Callable<Integer> {
                 spec.commandLine().getOut().flush();
                 break;
             case csv:
-                pairs(calibration).write(spec.commandLine().getOut(), format);
+                pairs(calibration, spec.commandLine().getOut(), format);
                 break;
             default:
                 report(spectrum, calibration);
@@ -304,7 +304,7 @@ final class CalibrateCommand implements Callable<Integer> {
         w.flush();
     }
 
-    private static Table pairs(Calibration calibration) {
+    private static void pairs(Calibration calibration, PrintWriter out, Table.Format format) {
         DispersionSolution solution = calibration.solution();
         LampMatch match = calibration.match();
         Table table = new Table(List.of(
@@ -316,7 +316,7 @@ final class CalibrateCommand implements Callable<Integer> {
                 Table.Column.number("residual_nm", "resid nm", "%.5f"),
                 Table.Column.number("residual_pixels", "resid px", "%.4f"),
                 Table.Column.text("used", "used"),
-                Table.Column.text("flag", "flag")));
+                Table.Column.text("flag", "flag")), out, format);
         for (int i = 0; i < solution.size(); i++) {
             table.add(solution.pixel(i), match.pixelSigma(i), calibration.pairLabel(i), solution.wavelength(i),
                     solution.wavelengthAt(solution.pixel(i)), solution.residualNm(i), solution.residualPixels(i),
@@ -330,7 +330,7 @@ final class CalibrateCommand implements Callable<Integer> {
                     solution.wavelengthAt(p), residualNm, residualNm / Math.abs(solution.dispersionAt(p)), "false",
                     "saturated");
         }
-        return table;
+        table.finish();
     }
 
     private void drawResiduals(OutputFiles.Batch batch, DispersionSolution solution) throws IOException {

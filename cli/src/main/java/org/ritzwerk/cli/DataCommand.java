@@ -63,14 +63,14 @@ final class DataCommand implements Callable<Integer> {
                 Table.Column.text("provider", "provider"),
                 Table.Column.text("version", "version"),
                 Table.Column.text("title", "title"),
-                Table.Column.text("source", "source")));
+                Table.Column.text("source", "source")), spec.commandLine().getOut(), format);
         for (DataRegistry.Listing listing : registry(files).list()) {
             String source = listing.info().provenance().render();
             table.add(listing.info().id(), listing.info().kind().id(), listing.origin().name().toLowerCase()
                     .replace('_', '-'), listing.providerId(), listing.info().version(), listing.info().title(),
                     format == Table.Format.text && source.length() > 60 ? source.substring(0, 57) + "..." : source);
         }
-        table.write(spec.commandLine().getOut(), format);
+        table.finish();
         return 0;
     }
 
@@ -127,11 +127,11 @@ final class DataCommand implements Callable<Integer> {
                 }
                 out.println();
             }
-            tableOf(set).write(out, format);
+            tableOf(set, out, format);
             return 0;
         }
 
-        private static Table tableOf(DataSet set) {
+        private static void tableOf(DataSet set, PrintWriter out, Table.Format format) {
             if (set instanceof LineList) {
                 LineList list = (LineList) set;
                 String unit = list.unit().symbol() + (list.medium() == null ? "" : " " + list.medium().spec());
@@ -139,7 +139,7 @@ final class DataCommand implements Callable<Integer> {
                         Table.Column.text("position", "position " + unit), Table.Column.text("uncertainty", "+-"),
                         Table.Column.text("intensity", "intensity"), Table.Column.text("strength", "strength"),
                         Table.Column.number("einstein_a", "A s-1", "%.4e"), Table.Column.text("lower", "lower"),
-                        Table.Column.text("upper", "upper"), Table.Column.text("note", "note")));
+                        Table.Column.text("upper", "upper"), Table.Column.text("note", "note")), out, format);
                 for (int i = 0; i < list.size(); i++) {
                     table.add(list.species(i).notation(), list.position(i),
                             list.uncertainty(i).isPresent() ? (Object) list.uncertainty(i).getAsDouble() : null,
@@ -148,41 +148,44 @@ final class DataCommand implements Callable<Integer> {
                             list.einsteinA(i).isPresent() ? (Object) list.einsteinA(i).getAsDouble() : null,
                             list.lower(i), list.upper(i), list.rowNote(i));
                 }
-                return table;
+                table.finish();
+                return;
             }
             if (set instanceof LevelList) {
                 LevelList levels = (LevelList) set;
                 Table table = new Table(List.of(Table.Column.text("species", "species"), Table.Column.text("label", "level"),
                         Table.Column.text("j", "j"), Table.Column.number("energy", "energy " + levels.unit().symbol(),
-                                "%.7f")));
+                                "%.7f")), out, format);
                 for (int i = 0; i < levels.size(); i++) {
                     table.add(levels.species(i).notation(), levels.label(i),
                             levels.twoJ(i) < 0 ? null : Notation.half(levels.twoJ(i)), levels.energy(i));
                 }
-                return table;
+                table.finish();
+                return;
             }
             if (set instanceof QuantumDefects) {
                 QuantumDefects defects = (QuantumDefects) set;
                 Table table = new Table(List.of(Table.Column.text("l", "l"), Table.Column.text("j", "j"),
-                        Table.Column.text("coefficients", "d0, d2, d4, ..."), Table.Column.text("valid_from_n", "from n")));
+                        Table.Column.text("coefficients", "d0, d2, d4, ..."), Table.Column.text("valid_from_n", "from n")), out, format);
                 for (QuantumDefects.Series series : defects.series()) {
                     table.add(series.l(), Notation.half(series.twoJ()), series.coefficients().toString(),
                             series.validFromN());
                 }
-                return table;
+                table.finish();
+                return;
             }
             IsotopeTable isotopes = (IsotopeTable) set;
             Table table = new Table(List.of(Table.Column.text("z", "Z"), Table.Column.text("a", "A"),
                     Table.Column.text("mass_u", "mass u"), Table.Column.text("spin", "I"),
                     Table.Column.text("moment_nm", "moment nm"), Table.Column.text("radius_fm", "radius fm"),
-                    Table.Column.text("source", "source")));
+                    Table.Column.text("source", "source")), out, format);
             for (Isotope isotope : isotopes.isotopes()) {
                 table.add(isotope.z(), isotope.massNumber(), isotope.atomicMass(), Notation.half(isotope.twiceSpin()),
                         isotope.magneticMoment().isPresent() ? (Object) isotope.magneticMoment().getAsDouble() : null,
                         isotope.chargeRadiusFm().isPresent() ? (Object) isotope.chargeRadiusFm().getAsDouble() : null,
                         isotope.source());
             }
-            return table;
+            table.finish();
         }
     }
 

@@ -154,7 +154,14 @@ final class IdentifyCommand implements Callable<Integer> {
         if (searchOffset != null) {
             search = search.withOffsetSearch(searchOffset * 1e-9);
         }
-        Candidates candidates = candidates(search.candidateWindow(peaks));
+        // Line generation at large --n-max can take minutes: show a sign of life on a terminal.
+        Progress.Running running = Progress.ticking(spec.commandLine().getErr(), "identify: computing the candidate lines");
+        Candidates candidates;
+        try {
+            candidates = candidates(search.candidateWindow(peaks));
+        } finally {
+            running.close();
+        }
         IdentificationSearch.Report report = search.run(peaks, candidates.catalog());
         if (plasma) {
             plasma(read, report, candidates);
@@ -234,7 +241,7 @@ final class IdentifyCommand implements Callable<Integer> {
                 Table.Column.number("uncertainty", "+-", "%.2g"),
                 Table.Column.text("unit", "unit"),
                 Table.Column.text("lines", "lines"),
-                Table.Column.text("note", "note")));
+                Table.Column.text("note", "note")), spec.commandLine().getOut(), format);
         for (PlasmaEstimate.Row row : rows) {
             table.add(row.species().notation(), row.quantity().id(),
                     row.value().isPresent() ? row.value().getAsDouble() : null,
@@ -245,7 +252,7 @@ final class IdentifyCommand implements Callable<Integer> {
             spec.commandLine().getErr().println("identify: no matched multiplet of a --species line; nothing to diagnose");
             spec.commandLine().getErr().flush();
         }
-        table.write(spec.commandLine().getOut(), format);
+        table.finish();
     }
 
     private void write(PeakFiles.Peaks read, Identification result, LineCatalog lines, ShiftSearch.Fit fit,
@@ -263,7 +270,7 @@ final class IdentifyCommand implements Callable<Integer> {
                 Table.Column.text("transition", "transition"),
                 Table.Column.number("line_position", "line", "%.6f"),
                 Table.Column.number("residual", "residual", "%+.6f"),
-                Table.Column.number("residual_sigma", "res/sigma", "%+.2f")));
+                Table.Column.number("residual_sigma", "res/sigma", "%+.2f")), out, format);
         double[] linePositions = new double[1];
         for (int i = 0; i < read.size(); i++) {
             int j = result.line(i);
@@ -280,7 +287,7 @@ final class IdentifyCommand implements Callable<Integer> {
                     linePosition == null ? null : read.positions()[i] - linePosition,
                     j < 0 ? null : result.normalizedResidual(i));
         }
-        table.write(out, format);
+        table.finish();
         PrintWriter summary = format == Table.Format.text ? out : spec.commandLine().getErr();
         if (format == Table.Format.text) {
             summary.println();

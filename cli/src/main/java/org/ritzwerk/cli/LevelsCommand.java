@@ -96,30 +96,46 @@ final class LevelsCommand implements Callable<Integer> {
         if (lMax < 0 || lMax > 50) {
             throw new IllegalArgumentException("--l-max must be 0 to 50, got " + lMax);
         }
-        Table table = new Table(columns);
         double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
         Ions.Atoms atoms = ions.resolveAtoms(data.context());
+        if (lifetimes) {
+            WorkEstimate.hydrogenLifetimes(nMax, atoms.ions().size()).ifPresent(note -> {
+                spec.commandLine().getErr().println(note);
+                spec.commandLine().getErr().flush();
+            });
+        }
+        Table table = new Table(columns, spec.commandLine().getOut(), format);
         for (Ions.Ion ion : atoms.ions()) {
-            LevelTable levels = ion.model().levels(nMax);
+            // One shell at a time, so that memory does not grow with --n-max (about 4 million
+            // levels at n = 2000); the ground level lies in shell 1.
+            LevelTable shell = ion.model().levels(1, 1);
             double ground = Double.POSITIVE_INFINITY;
-            for (int i = 0; i < levels.size(); i++) {
-                ground = Math.min(ground, levels.energy(i));
+            for (int i = 0; i < shell.size(); i++) {
+                ground = Math.min(ground, shell.energy(i));
             }
             HydrogenLikeLines lines = HydrogenLikeLines.of(ion.model());
-            for (int i = 0; i < levels.size(); i++) {
-                Object[] row = {ion.species().notation(), levels.label(i), levels.n(i), levels.l(i),
-                    Notation.half(levels.twoJ(i)), levels.twoF(i) < 0 ? null : Notation.half(levels.twoF(i)), levels.statisticalWeight(i),
-                    (levels.energy(i) - ground) / hcPerCm, ion.model().tier().id(), null, null};
-                if (lifetimes) {
-                    row[9] = lines.lifetime(levels.n(i), levels.l(i), levels.twoJ(i));
+            String species = ion.species().notation();
+            String model = ion.model().tier().id();
+            Progress progress = Progress.on(spec.commandLine().getErr(), "levels: " + ion.species().notation()
+                    + (lifetimes ? " lifetimes" : ""));
+            for (int n = 1; n <= nMax; n++) {
+                LevelTable levels = n == 1 ? shell : ion.model().levels(n, n);
+                for (int i = 0; i < levels.size(); i++) {
+                    Object[] row = {species, levels.label(i), levels.n(i), levels.l(i),
+                        Notation.half(levels.twoJ(i)), levels.twoF(i) < 0 ? null : Notation.half(levels.twoF(i)),
+                        levels.statisticalWeight(i), (levels.energy(i) - ground) / hcPerCm, model, null, null};
+                    if (lifetimes) {
+                        row[9] = lines.lifetime(levels.n(i), levels.l(i), levels.twoJ(i));
+                    }
+                    table.add(java.util.Arrays.copyOf(row, columns.size()));
                 }
-                table.add(java.util.Arrays.copyOf(row, columns.size()));
+                progress.accept(lifetimes ? Math.pow((double) n / nMax, 4) : (double) n * n / ((double) nMax * nMax));
             }
         }
         for (AlkaliAtom atom : atoms.alkalis()) {
             addAlkali(table, atom, columns.size());
         }
-        table.write(spec.commandLine().getOut(), format);
+        table.finish();
         return 0;
     }
 

@@ -1,7 +1,6 @@
 package org.ritzwerk.cli;
 
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.concurrent.Callable;
 import org.ritzwerk.atom.State;
@@ -94,15 +93,64 @@ final class LinesCommand implements Callable<Integer> {
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
-    /** One line of one species, for sorting across species: a one-electron ion's or an alkali atom's. */
-    private record Line(String species, String model, LineTable table, int index, AlkaliLines.Line alkali) {
+    /**
+     * The lines of one species, highest frequency first (equal frequencies in the order the
+     * library gives them): a one-electron ion's line table or an alkali atom's lines.
+     */
+    private static final class Source {
+        final String species;
+        final String model;
+        final LineTable table;
+        final int[] order;
+        final List<AlkaliLines.Line> alkali;
+        int next;
 
-        Line(String species, String model, LineTable table, int index) {
-            this(species, model, table, index, null);
+        Source(String species, String model, LineTable table, double minA) {
+            this.species = species;
+            this.model = model;
+            this.table = table;
+            this.alkali = null;
+            this.order = descending(table, minA);
+        }
+
+        Source(String species, List<AlkaliLines.Line> alkali) {
+            this.species = species;
+            this.model = "quantum-defect";
+            this.table = null;
+            this.order = null;
+            this.alkali = alkali;
+        }
+
+        boolean hasNext() {
+            return next < (alkali != null ? alkali.size() : order.length);
         }
 
         double frequency() {
-            return alkali != null ? alkali.frequency() : table.frequency(index);
+            return alkali != null ? alkali.get(next).frequency() : table.frequency(order[next]);
+        }
+
+        /** The table's lines with A >= minA by falling frequency; ties keep the table's order. */
+        private static int[] descending(LineTable table, double minA) {
+            int kept = 0;
+            for (int i = 0; i < table.size(); i++) {
+                kept += table.einsteinA(i) >= minA ? 1 : 0;
+            }
+            int[] order = new int[kept];
+            int k = 0;
+            int end = table.size();
+            while (end > 0) {       // the table rises in frequency: walk groups of equal frequency down
+                int start = end - 1;
+                while (start > 0 && table.frequency(start - 1) == table.frequency(end - 1)) {
+                    start--;
+                }
+                for (int i = start; i < end; i++) {
+                    if (table.einsteinA(i) >= minA) {
+                        order[k++] = i;
+                    }
+                }
+                end = start;
+            }
+            return order;
         }
     }
 
@@ -130,25 +178,21 @@ final class LinesCommand implements Callable<Integer> {
         if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {
             throw new IllegalArgumentException("--from and --to are the same position; give a window");
         }
-        List<Line> found = new ArrayList<>();
-        for (Ions.Ion ion : atoms.ions()) {
-            HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
-            LineTable table = multiplets ? generator.multiplets(nMax, one, two) : generator.components(nMax, one, two);
-            for (int i = 0; i < table.size(); i++) {
-                if (table.einsteinA(i) >= minA) {
-                    found.add(new Line(ion.species().notation(), ion.model().tier().id(), table, i));
-                }
-            }
-        }
         double lowHz = Math.min(one.toFrequency().inHertz(), two.toFrequency().inHertz());
         double highHz = Math.max(one.toFrequency().inHertz(), two.toFrequency().inHertz());
+        List<Source> sources = new ArrayList<>();
+        for (Ions.Ion ion : atoms.ions()) {
+            HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
+            Progress progress = Progress.on(spec.commandLine().getErr(), "lines: " + ion.species().notation());
+            LineTable table = multiplets ? generator.multiplets(nMax, lowHz, highHz, progress)
+                    : generator.components(nMax, lowHz, highHz, progress);
+            sources.add(new Source(ion.species().notation(), ion.model().tier().id(), table, minA));
+        }
         for (AlkaliAtom atom : atoms.alkalis()) {
             Progress progress = Progress.on(spec.commandLine().getErr(), "lines: " + atom.species().notation());
-            for (AlkaliLines.Line line : AlkaliLines.window(atom, lowHz, highHz, nMax, lMax, minA, progress)) {
-                found.add(new Line(atom.species().notation(), "quantum-defect", null, -1, line));
-            }
+            sources.add(new Source(atom.species().notation(),
+                    AlkaliLines.window(atom, lowHz, highHz, nMax, lMax, minA, progress)));
         }
-        found.sort(Comparator.comparingDouble(Line::frequency).reversed());
         Table output = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),
@@ -163,32 +207,42 @@ final class LinesCommand implements Callable<Integer> {
                 Table.Column.number("einstein_a_per_s", "A s-1", "%.4e"),
                 Table.Column.number("oscillator_strength", "f", "%.4e"),
                 Table.Column.number("line_strength_au", "S (e a0)^2", "%.4e"),
-                Table.Column.text("model", "model")));
+                Table.Column.text("model", "model")), spec.commandLine().getOut(), format);
         double atomicDipole = PhysicalConstants.E * PhysicalConstants.FINE_STRUCTURE.value()
                 / (4 * Math.PI * PhysicalConstants.RYDBERG.value());
-        for (Line line : found) {
-            if (line.alkali() != null) {
-                AlkaliLines.Line a = line.alkali();
+        while (true) {          // merge the species' lines, highest frequency first
+            Source line = null;
+            for (Source source : sources) {
+                if (source.hasNext() && (line == null || source.frequency() > line.frequency())) {
+                    line = source;
+                }
+            }
+            if (line == null) {
+                break;
+            }
+            int index = line.next++;
+            if (line.alkali != null) {
+                AlkaliLines.Line a = line.alkali.get(index);
                 double vacuumMetres = PhysicalConstants.C / a.frequency();
                 double airMetres = airWavelength(vacuumMetres);
-                output.add(line.species(), a.upper().notation(), a.lower().notation(),
+                output.add(line.species, a.upper().notation(), a.lower().notation(),
                         a.upper().label().replaceAll("[0-9]", "").charAt(0) + "-"
                                 + a.lower().label().replaceAll("[0-9]", "").charAt(0),
                         (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
                         a.frequency() / PhysicalConstants.C / 100, a.frequency(), a.einsteinA(),
-                        a.oscillatorStrength(), a.lineStrength(), line.model());
+                        a.oscillatorStrength(), a.lineStrength(), line.model);
                 continue;
             }
-            LineTable t = line.table();
-            int i = line.index();
+            LineTable t = line.table;
+            int i = line.order[index];
             double vacuumMetres = PhysicalConstants.C / t.frequency(i);
             double airMetres = airWavelength(vacuumMetres);
-            output.add(line.species(), t.upperLabel(i), t.lowerLabel(i), t.lineName(i),
+            output.add(line.species, t.upperLabel(i), t.lowerLabel(i), t.lineName(i),
                     (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
                     t.frequency(i) / PhysicalConstants.C / 100, t.frequency(i), t.einsteinA(i),
-                    t.oscillatorStrength(i), t.lineStrength(i) / (atomicDipole * atomicDipole), line.model());
+                    t.oscillatorStrength(i), t.lineStrength(i) / (atomicDipole * atomicDipole), line.model);
         }
-        output.write(spec.commandLine().getOut(), format);
+        output.finish();
         return 0;
     }
 
@@ -205,14 +259,17 @@ final class LinesCommand implements Callable<Integer> {
             throw new IllegalArgumentException("--temperature must be between 0 and 1e5 K, got " + temperature);
         }
         AlkaliAtom atom = atoms.alkalis().get(0);
-        Table table;
         if (transition != null) {
             State[] pair = AlkaliTables.pair(transition);
-            table = AlkaliTables.transition(atom, pair[0], pair[1], temperature);
+            // Both states' lifetimes sum over many states at high n: show a sign of life.
+            try (Progress.Running running = Progress.ticking(spec.commandLine().getErr(), "lines: "
+                    + atom.species().notation() + " " + transition + ": rates and lifetimes")) {
+                AlkaliTables.transition(atom, pair[0], pair[1], temperature, spec.commandLine().getOut(), format,
+                        running);
+            }
         } else {
-            table = AlkaliTables.ladder(atom, AlkaliTables.ladder(ladder));
+            AlkaliTables.ladder(atom, AlkaliTables.ladder(ladder), spec.commandLine().getOut(), format);
         }
-        table.write(spec.commandLine().getOut(), format);
         return 0;
     }
 

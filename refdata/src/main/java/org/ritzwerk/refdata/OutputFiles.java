@@ -19,6 +19,8 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ThreadLocalRandom;
 
 /**
@@ -36,11 +38,40 @@ import java.util.concurrent.ThreadLocalRandom;
  * file should go, or a read-only file are refused. {@link Batch} writes several outputs and moves
  * them into place together at the end.
  *
- * <p>Stateless and thread-safe (two writers of the same target: the last move wins).
+ * <p>An interrupted process (Ctrl-C, {@code kill}) removes its temporary files too: every
+ * temporary file not yet moved or removed is listed in one process-wide set, and a shutdown hook,
+ * installed with the first one, removes what is left in it. Only {@code kill -9} or a crash of the
+ * JVM can leave a hidden {@code .NAME.*.part} file.
+ *
+ * <p>Thread-safe (two writers of the same target: the last move wins).
  */
 public final class OutputFiles {
 
     private OutputFiles() {
+    }
+
+    /** Temporary files written and not yet moved or removed, for the shutdown hook. */
+    private static final class Pending {
+        static final Set<Path> FILES = ConcurrentHashMap.newKeySet();
+
+        static {
+            Runtime.getRuntime().addShutdownHook(new Thread(Pending::removeAll, "ritzwerk-output-cleanup"));
+        }
+
+        static void removeAll() {
+            for (Path temporary : FILES) {
+                try {
+                    Files.deleteIfExists(temporary);
+                } catch (IOException e) {
+                    // the process is ending; nothing more can be done
+                }
+            }
+        }
+    }
+
+    /** @return the temporary files written and not yet moved or removed (for tests) */
+    static Set<Path> pendingTemporaries() {
+        return Set.copyOf(Pending.FILES);
     }
 
     /** Writes text to a stream of characters. */
@@ -140,6 +171,7 @@ public final class OutputFiles {
                 throw new IllegalArgumentException("two outputs name the same file: " + file);
             }
             Path temporary = temporaryBeside(target);
+            Pending.FILES.add(temporary);
             staged.put(target, temporary);
             try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(temporary), 1 << 16)) {
                 content.writeTo(out);
@@ -163,6 +195,7 @@ public final class OutputFiles {
                     Files.move(temporary, target, StandardCopyOption.REPLACE_EXISTING);
                 }
                 staged.remove(target);
+                Pending.FILES.remove(temporary);
             }
         }
 
@@ -173,6 +206,7 @@ public final class OutputFiles {
             for (Path temporary : staged.values()) {
                 try {
                     Files.deleteIfExists(temporary);
+                    Pending.FILES.remove(temporary);
                 } catch (IOException e) {
                     failure = failure == null ? e : failure;
                 }

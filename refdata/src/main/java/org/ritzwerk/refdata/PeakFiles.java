@@ -2,6 +2,7 @@ package org.ritzwerk.refdata;
 
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.EnumSet;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -107,20 +108,48 @@ public final class PeakFiles {
      */
     public static Peaks read(String text, String source) {
         String name = source;
-        TabularFiles.Parsed p = TabularFiles.isJson(name, text) ? TabularFiles.parseJson(SPEC, text, name)
-                : TabularFiles.parseCsv(SPEC, text, name);
+        // Rows become columns of numbers as they are read (36 bytes a peak), not a map a row.
+        Columns columns = new Columns();
+        TabularFiles.Parsed p = TabularFiles.isJson(name, text) ? TabularFiles.parseJson(SPEC, text, name, columns)
+                : TabularFiles.parseCsv(SPEC, text, name, columns);
         p.checkHeader();
         p.provenance();
         Unit unit = p.unit(EnumSet.of(Kind.WAVELENGTH, Kind.WAVENUMBER, Kind.FREQUENCY, Kind.ENERGY));
         Medium medium = p.medium(unit);
-        int n = p.rows.size();
-        double[] positions = new double[n];
-        double[] uncertainties = new double[n];
-        double[] intensities = new double[n];
-        double[] widths = new double[n];
-        int[] lines = new int[n];
-        for (int k = 0; k < n; k++) {
-            TabularFiles.Row row = p.rows.get(k);
+        int n = columns.size;
+        double[] positions = Arrays.copyOf(columns.positions, n);
+        double[] uncertainties = Arrays.copyOf(columns.uncertainties, n);
+        double[] intensities = Arrays.copyOf(columns.intensities, n);
+        double[] widths = Arrays.copyOf(columns.widths, n);
+        int[] lines = Arrays.copyOf(columns.lines, n);
+        if (n == 0 && p.problems.isEmpty()) {
+            p.problem(1, 0, "data.empty", "the file has no peaks", "");
+        }
+        p.throwIfAny();
+        return new Peaks(p.header.get("id"), unit, unit.kind() == Kind.WAVELENGTH ? medium : null, positions,
+                uncertainties, intensities, widths, lines);
+    }
+
+    /** The peaks' columns, filled row by row as the file is read. */
+    private static final class Columns implements TabularFiles.RowSink {
+        double[] positions = new double[64];
+        double[] uncertainties = new double[64];
+        double[] intensities = new double[64];
+        double[] widths = new double[64];
+        int[] lines = new int[64];
+        int size;
+
+        @Override
+        public void accept(TabularFiles.Parsed p, TabularFiles.Row row) {
+            if (size == positions.length) {
+                int grown = size + (size >> 1);
+                positions = Arrays.copyOf(positions, grown);
+                uncertainties = Arrays.copyOf(uncertainties, grown);
+                intensities = Arrays.copyOf(intensities, grown);
+                widths = Arrays.copyOf(widths, grown);
+                lines = Arrays.copyOf(lines, grown);
+            }
+            int k = size++;
             positions[k] = p.number(row, "position", true);
             if (positions[k] == 0) {
                 p.rowProblem(row, "position", "data.not-positive", "position must be positive, got 0");
@@ -131,12 +160,6 @@ public final class PeakFiles {
             p.text(row, "note");
             lines[k] = row.line();
         }
-        if (n == 0 && p.problems.isEmpty()) {
-            p.problem(1, 0, "data.empty", "the file has no peaks", "");
-        }
-        p.throwIfAny();
-        return new Peaks(p.header.get("id"), unit, unit.kind() == Kind.WAVELENGTH ? medium : null, positions,
-                uncertainties, intensities, widths, lines);
     }
 
     /**

@@ -4,7 +4,6 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.StringWriter;
 import java.nio.ByteBuffer;
-import java.nio.charset.CharacterCodingException;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -55,7 +54,8 @@ final class TabularFiles {
     /** The most rows read. */
     static final int MAX_ROWS = 1_000_000;
 
-    private static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
+    /** What {@link #isDecimal} accepts, as a regular expression (the tests compare the two). */
+    static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
     private static final int MAX_TEXT = 500;
     /** Reads values out of a running parser, so a value is not the end of the input. */
     private static final JsonMapper JSON = JsonMapper.builder()
@@ -95,25 +95,79 @@ final class TabularFiles {
     record Row(int line, String raw, Map<String, Object> values) {
     }
 
+    /**
+     * Takes each data row as it is read, instead of {@link Parsed#rows} keeping them all, so that a
+     * reader of a big file can turn rows into columns of numbers at once (a row's map and text are
+     * then garbage). Its problems go to the {@link Parsed} as usual.
+     */
+    @FunctionalInterface
+    interface RowSink {
+        /**
+         * @param p   the file being read (for its problem list and value readers)
+         * @param row the row
+         */
+        void accept(Parsed p, Row row);
+    }
+
     /** A file read into its header and rows, with every problem found; the formats add their own. */
     static final class Parsed {
         final Spec spec;
         final String source;
-        final String[] lines;
+        private final String text;
+        /** Where each line starts in the text (4 bytes a line, no string a line). */
+        private final int[] lineStarts;
+        private final int lineCount;
         final Map<String, String> header = new LinkedHashMap<>();
         final Map<String, Integer> headerLine = new HashMap<>();
+        /** The rows read, unless a {@link RowSink} took them. */
         final List<Row> rows = new ArrayList<>();
         final List<DataProblem> problems = new ArrayList<>();
         Map<String, Integer> columnIndex = Map.of();
+        private final RowSink sink;
+        private int rowCount;
 
-        Parsed(Spec spec, String source, String text) {
+        Parsed(Spec spec, String source, String text, RowSink sink) {
             this.spec = spec;
             this.source = source;
-            this.lines = text.split("\\R", -1);
+            this.text = text;
+            this.sink = sink;
+            // Line breaks as the regular expression \R takes them: \r\n, or one of \n \u000B \f \r
+            // \u0085 \u2028 \u2029.
+            int[] starts = new int[16];
+            int count = 0;
+            starts[count++] = 0;
+            for (int i = 0; i < text.length(); i++) {
+                char c = text.charAt(i);
+                if (c == '\n' || c == '\u000B' || c == '\f' || c == '\r' || c == '\u0085' || c == '\u2028'
+                        || c == '\u2029') {
+                    if (c == '\r' && i + 1 < text.length() && text.charAt(i + 1) == '\n') {
+                        i++;
+                    }
+                    if (count == starts.length) {
+                        starts = java.util.Arrays.copyOf(starts, 2 * count);
+                    }
+                    starts[count++] = i + 1;
+                }
+            }
+            this.lineStarts = starts;
+            this.lineCount = count;
+        }
+
+        /** @return the number of lines (a text ending in a line break has an empty last line) */
+        int lineCount() {
+            return lineCount;
         }
 
         String raw(int line) {
-            return line >= 1 && line <= lines.length ? lines[line - 1] : "";
+            if (line < 1 || line > lineCount) {
+                return "";
+            }
+            int start = lineStarts[line - 1];
+            int end = line < lineCount ? lineStarts[line] : text.length();
+            if (line < lineCount) {     // leave out the line break: \r\n or one character
+                end -= end - start >= 2 && text.charAt(end - 1) == '\n' && text.charAt(end - 2) == '\r' ? 2 : 1;
+            }
+            return text.substring(start, end);
         }
 
         void problem(int line, int column, String code, String reason, String raw) {
@@ -263,7 +317,7 @@ final class TabularFiles {
                 number = (Double) value;
             } else {
                 String text = ((String) value).strip();
-                if (!DECIMAL.matcher(text).matches()) {
+                if (!isDecimal(text)) {
                     rowProblem(row, column, "data.not-a-number", column + " is not a number: '" + value + "'");
                     return Double.NaN;
                 }
@@ -320,6 +374,54 @@ final class TabularFiles {
     }
 
     /** @throws DataFileException when the path is a folder, naming it */
+    /**
+     * @param text a value's text, stripped
+     * @return whether it matches {@code [+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?} (a decimal number
+     *         in plain or exponent form); a scan, as a regular expression costs several times more
+     *         on a million rows
+     */
+    static boolean isDecimal(String text) {
+        int i = 0;
+        int n = text.length();
+        if (i < n && (text.charAt(i) == '+' || text.charAt(i) == '-')) {
+            i++;
+        }
+        int digits = 0;
+        while (i < n && isDigit(text.charAt(i))) {
+            i++;
+            digits++;
+        }
+        if (i < n && text.charAt(i) == '.') {
+            i++;
+            while (i < n && isDigit(text.charAt(i))) {
+                i++;
+                digits++;
+            }
+        }
+        if (digits == 0) {
+            return false;
+        }
+        if (i < n && (text.charAt(i) == 'e' || text.charAt(i) == 'E')) {
+            i++;
+            if (i < n && (text.charAt(i) == '+' || text.charAt(i) == '-')) {
+                i++;
+            }
+            int exponent = 0;
+            while (i < n && isDigit(text.charAt(i))) {
+                i++;
+                exponent++;
+            }
+            if (exponent == 0) {
+                return false;
+            }
+        }
+        return i == n;
+    }
+
+    private static boolean isDigit(char c) {
+        return c >= '0' && c <= '9';
+    }
+
     static void refuseFolder(Path file) {
         if (Files.isDirectory(file)) {
             throw new DataFileException(DataFileException.UNREADABLE, file.toString(), List.of(),
@@ -350,25 +452,44 @@ final class TabularFiles {
      */
     static String decodeStrict(byte[] bytes, String source) {
         ByteBuffer buffer = ByteBuffer.wrap(bytes);
-        try {
-            return withoutByteOrderMark(StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
-                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(buffer).toString());
-        } catch (CharacterCodingException e) {
-            // The decoder stops with the buffer at the first bad byte: name its line and column.
-            int at = Math.min(buffer.position(), bytes.length);
-            int line = 1;
-            int lineStart = 0;
-            for (int i = 0; i < at; i++) {
-                if (bytes[i] == '\n') {
-                    line++;
-                    lineStart = i + 1;
-                }
+        // Checked through a small buffer of characters, then made a string once: decoding into one
+        // buffer of the whole text would need twice the file's size in characters besides.
+        java.nio.charset.CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
+                .onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT);
+        java.nio.CharBuffer chunk = java.nio.CharBuffer.allocate(8192);
+        boolean valid;
+        while (true) {
+            java.nio.charset.CoderResult result = decoder.decode(buffer, chunk, true);
+            if (result.isUnderflow()) {
+                result = decoder.flush(chunk);
             }
-            int column = new String(bytes, lineStart, at - lineStart, StandardCharsets.UTF_8).length() + 1;
-            throw new DataFileException(DataFileException.INVALID, source, List.of(new DataProblem(source, line, column,
-                    "data.not-utf8", String.format(Locale.ROOT, "byte 0x%02X is not valid UTF-8 text here",
-                            bytes[at] & 0xff), "")), "");
+            if (result.isError()) {
+                valid = false;
+                break;
+            }
+            if (result.isUnderflow()) {
+                valid = true;
+                break;
+            }
+            chunk.clear();
         }
+        if (valid) {
+            return withoutByteOrderMark(new String(bytes, StandardCharsets.UTF_8));
+        }
+        // The decoder stops with the buffer at the first bad byte: name its line and column.
+        int at = Math.min(buffer.position(), bytes.length);
+        int line = 1;
+        int lineStart = 0;
+        for (int i = 0; i < at; i++) {
+            if (bytes[i] == '\n') {
+                line++;
+                lineStart = i + 1;
+            }
+        }
+        int column = new String(bytes, lineStart, at - lineStart, StandardCharsets.UTF_8).length() + 1;
+        throw new DataFileException(DataFileException.INVALID, source, List.of(new DataProblem(source, line, column,
+                "data.not-utf8", String.format(Locale.ROOT, "byte 0x%02X is not valid UTF-8 text here",
+                        bytes[at] & 0xff), "")), "");
     }
 
     /**
@@ -387,11 +508,20 @@ final class TabularFiles {
     }
 
     static Parsed parseCsv(Spec spec, String text, String source) {
-        Parsed p = new Parsed(spec, source, text);
+        return parseCsv(spec, text, source, null);
+    }
+
+    /**
+     * @param sink takes each row as it is read (then {@link Parsed#rows} stays empty); null to keep
+     *             the rows in {@link Parsed#rows}
+     */
+    static Parsed parseCsv(Spec spec, String text, String source, RowSink sink) {
+        Parsed p = new Parsed(spec, source, text, sink);
         String formatLine = spec.format() + " " + spec.version();
         int lineNumber = 0;
         boolean sawFormat = false;
-        for (String line : p.lines) {
+        for (int l = 1; l <= p.lineCount(); l++) {
+            String line = p.raw(l);
             lineNumber++;
             String stripped = line.strip();
             if (stripped.isEmpty()) {
@@ -440,8 +570,11 @@ final class TabularFiles {
                     continue;
                 }
                 if (columns == null) {
-                    columns = fields;
-                    columns(p, columns, line);
+                    columns = fields.clone();
+                    for (int c = 0; c < columns.length; c++) {
+                        columns[c] = columns[c].strip();
+                    }
+                    columns(p, fields, line);
                     continue;
                 }
                 if (fields.length != columns.length) {
@@ -451,7 +584,7 @@ final class TabularFiles {
                 }
                 Map<String, Object> values = new HashMap<>();
                 for (int c = 0; c < columns.length; c++) {
-                    values.put(columns[c].strip(), fields[c].isEmpty() ? null : fields[c]);
+                    values.put(columns[c], fields[c].isEmpty() ? null : fields[c]);
                 }
                 if (!addRow(p, new Row(line, p.raw(line), values))) {
                     break;
@@ -490,17 +623,30 @@ final class TabularFiles {
 
     /** @return false when the row limit is passed and reading should stop */
     private static boolean addRow(Parsed p, Row row) {
-        if (p.rows.size() >= MAX_ROWS) {
+        if (p.rowCount >= MAX_ROWS) {
             p.problem(row.line(), 0, DataFileException.TOO_LARGE, "more than " + MAX_ROWS + " rows; split the file",
                     row.raw());
             return false;
         }
-        p.rows.add(row);
+        p.rowCount++;
+        if (p.sink != null) {
+            p.sink.accept(p, row);
+        } else {
+            p.rows.add(row);
+        }
         return true;
     }
 
     static Parsed parseJson(Spec spec, String text, String source) {
-        Parsed p = new Parsed(spec, source, text);
+        return parseJson(spec, text, source, null);
+    }
+
+    /**
+     * @param sink takes each row as it is read (then {@link Parsed#rows} stays empty); null to keep
+     *             the rows in {@link Parsed#rows}
+     */
+    static Parsed parseJson(Spec spec, String text, String source, RowSink sink) {
+        Parsed p = new Parsed(spec, source, text, sink);
         List<String> jsonKeys = new ArrayList<>(List.of("format", "formatVersion"));
         spec.headerKeys().forEach(key -> jsonKeys.add(spec.jsonKey(key)));
         jsonKeys.add(spec.arrayKey());

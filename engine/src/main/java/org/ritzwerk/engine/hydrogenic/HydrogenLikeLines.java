@@ -2,6 +2,7 @@ package org.ritzwerk.engine.hydrogenic;
 
 import java.util.Locale;
 import java.util.Objects;
+import java.util.function.DoubleConsumer;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.quantity.SpectralQuantity;
 
@@ -75,9 +76,28 @@ public final class HydrogenLikeLines {
      * @return every fine-structure component with upper n &lt;= nMax in the window, by frequency
      */
     public LineTable components(int nMax, double minHertz, double maxHertz) {
+        return components(nMax, minHertz, maxHertz, fraction -> { });
+    }
+
+    /**
+     * As {@link #components(int, double, double)}, telling {@code progress} the fraction done (0 to
+     * 1, after each upper shell) so that a long run at large n can show it. The share of a shell
+     * pair n, n' in the window is taken as n'^2 (n + n') + 1 (about n' radial integrals, each of
+     * about n' terms of numbers that grow with n + n'); pairs outside the window count 1.
+     *
+     * @param nMax     highest upper principal quantum number, 1 to {@link #MAX_N}
+     * @param minHertz lower end of the window (vacuum frequency, Hz), not negative
+     * @param maxHertz upper end of the window (Hz), above {@code minHertz}
+     * @param progress told the fraction done after each upper shell; may be a no-op
+     * @return every fine-structure component with upper n &lt;= nMax in the window, by frequency
+     */
+    public LineTable components(int nMax, double minHertz, double maxHertz, DoubleConsumer progress) {
         checkWindow(nMax, minHertz, maxHertz);
+        Objects.requireNonNull(progress, "progress");
+        double[] done = shares(nMax, minHertz, maxHertz, true);
         LineTable.Builder lines = new LineTable.Builder();
         for (int nU = 1; nU <= nMax; nU++) {
+            progress.accept(done[nU - 1]);
             for (int nL = 1; nL <= nU; nL++) {
                 if (outside(nU, nL, minHertz, maxHertz)) {
                     continue;
@@ -85,6 +105,7 @@ public final class HydrogenLikeLines {
                 addComponents(nU, nL, minHertz, maxHertz, lines);
             }
         }
+        progress.accept(1);
         return LineTable.sorted(lines, model.nucleus().z());
     }
 
@@ -119,9 +140,27 @@ public final class HydrogenLikeLines {
      * @return every n -> n' multiplet (n' &lt; n &lt;= nMax) whose blended frequency is in the window
      */
     public LineTable multiplets(int nMax, double minHertz, double maxHertz) {
+        return multiplets(nMax, minHertz, maxHertz, fraction -> { });
+    }
+
+    /**
+     * As {@link #multiplets(int, double, double)}, telling {@code progress} the fraction done.
+     *
+     * @param nMax     highest upper principal quantum number, 1 to {@link #MAX_N}
+     * @param minHertz lower end of the window (Hz)
+     * @param maxHertz upper end of the window (Hz)
+     * @param progress told the fraction done (0 to 1, weighted as in
+     *                 {@link #components(int, double, double, DoubleConsumer)}) after each upper
+     *                 shell; may be a no-op
+     * @return every n -> n' multiplet (n' &lt; n &lt;= nMax) whose blended frequency is in the window
+     */
+    public LineTable multiplets(int nMax, double minHertz, double maxHertz, DoubleConsumer progress) {
         checkWindow(nMax, minHertz, maxHertz);
+        Objects.requireNonNull(progress, "progress");
+        double[] done = shares(nMax, minHertz, maxHertz, false);
         LineTable.Builder lines = new LineTable.Builder();
         for (int nU = 2; nU <= nMax; nU++) {
+            progress.accept(done[nU - 1]);
             for (int nL = 1; nL < nU; nL++) {
                 if (outside(nU, nL, minHertz, maxHertz)) {
                     continue;
@@ -144,6 +183,7 @@ public final class HydrogenLikeLines {
                 }
             }
         }
+        progress.accept(1);
         return LineTable.sorted(lines, model.nucleus().z());
     }
 
@@ -281,12 +321,15 @@ public final class HydrogenLikeLines {
 
     /** Whether every line n -> n' surely lies outside the window (bounds from the shells' extreme levels). */
     private boolean outside(int nU, int nL, double minHertz, double maxHertz) {
-        double[] upper = shellBounds(nU);
-        double[] lower = shellBounds(nL);
+        return outside(shellBounds(nU), shellBounds(nL), nU == nL, minHertz, maxHertz);
+    }
+
+    private static boolean outside(double[] upper, double[] lower, boolean sameShell, double minHertz,
+            double maxHertz) {
         double low = (upper[0] - lower[1]) / PhysicalConstants.H;
         double high = (upper[1] - lower[0]) / PhysicalConstants.H;
         double margin = 0.01 * Math.abs(high - low) + 1e-9 * Math.abs(high);
-        return high + margin < minHertz || Math.max(low, 0) - margin > maxHertz || nU == nL && high <= 0;
+        return high + margin < minHertz || Math.max(low, 0) - margin > maxHertz || sameShell && high <= 0;
     }
 
     /** {lowest, highest} binding energy in shell n among s1/2, p1/2 and the top j. */
@@ -295,6 +338,31 @@ public final class HydrogenLikeLines {
         double b = n > 1 ? model.energy(n, 1, 1) : a;
         double c = model.energy(n, n - 1, 2 * n - 1);
         return new double[] {Math.min(a, Math.min(b, c)), Math.max(a, Math.max(b, c))};
+    }
+
+    /**
+     * @return element n: the share of the work done after the upper shells 1 to n (0 for n = 0),
+     *         each pair of shells in the window weighted by n'^2 (n + n') + 1, each pair outside by 1
+     */
+    private double[] shares(int nMax, double minHertz, double maxHertz, boolean sameShell) {
+        double[][] bounds = new double[nMax + 1][];
+        for (int n = 1; n <= nMax; n++) {
+            bounds[n] = shellBounds(n);
+        }
+        double[] done = new double[nMax + 1];
+        for (int nU = 1; nU <= nMax; nU++) {
+            double shell = 0;
+            for (int nL = 1; nL < nU || sameShell && nL == nU; nL++) {
+                shell += outside(bounds[nU], bounds[nL], nU == nL, minHertz, maxHertz) ? 1
+                        : (double) nL * nL * (nU + nL) + 1;
+            }
+            done[nU] = done[nU - 1] + shell;
+        }
+        double total = done[nMax];
+        for (int n = 0; n <= nMax; n++) {
+            done[n] = total > 0 ? done[n] / total : 1;
+        }
+        return done;
     }
 
     private static void checkWindow(int nMax, double minHertz, double maxHertz) {

@@ -183,19 +183,37 @@ public final class HydrogenLikeModel {
      *         n, l, j, F; about nMax^2 levels, no object per level
      */
     public LevelTable levels(int nMax) {
+        return levels(1, nMax);
+    }
+
+    /**
+     * The levels of the shells nMin to nMax only, so that a caller can go through many levels a
+     * few shells at a time: shell n holds 2n - 1 levels (one more where this tier resolves the
+     * hyperfine structure of s levels of a nucleus with spin), 24 bytes of table each.
+     *
+     * @param nMin lowest principal quantum number, 1 to nMax
+     * @param nMax highest principal quantum number, nMin to {@link HydrogenLikeLines#MAX_N}
+     * @return every level n l j (and F where this tier resolves it) with nMin &lt;= n &lt;= nMax,
+     *         in the order n, l, j, F; no object per level
+     */
+    public LevelTable levels(int nMin, int nMax) {
         if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
             throw new IllegalArgumentException("n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
         }
+        if (nMin < 1 || nMin > nMax) {
+            throw new IllegalArgumentException("n-min must be 1 to n-max = " + nMax + ", got " + nMin);
+        }
         boolean hyperfine = resolvesHyperfine();
         int twoI = nucleus.twiceSpin();
-        int count = nMax * nMax + (hyperfine ? nMax * (Math.min(twoI, 1)) : 0);
+        int shells = nMax - nMin + 1;
+        int count = nMax * nMax - (nMin - 1) * (nMin - 1) + (hyperfine ? shells * (Math.min(twoI, 1)) : 0);
         int[] ns = new int[count];
         int[] ls = new int[count];
         int[] twoJs = new int[count];
         int[] twoFs = new int[count];
         double[] energies = new double[count];
         int i = 0;
-        for (int n = 1; n <= nMax; n++) {
+        for (int n = nMin; n <= nMax; n++) {
             for (int l = 0; l < n; l++) {
                 for (int twoJ = Math.max(2 * l - 1, 1); twoJ <= 2 * l + 1; twoJ += 2) {
                     double centroid = centroid(n, l, twoJ);
