@@ -116,7 +116,22 @@ final class LinesCommand implements Callable<Integer> {
         }
         boolean air = AxisMedium.isAir(medium);
         Ions.Atoms atoms = ions.resolveAtoms(data.context());
-        if (transition != null || ladder != null) {
+        OptionRules rules = new OptionRules(spec);
+        boolean single = transition != null || ladder != null;
+        String singleOption = transition != null ? "--transition" : "--ladder";
+        for (String option : new String[] {"--from", "--to", "--n-max", "--l-max", "--min-a", "--multiplets",
+            "--medium"}) {
+            rules.refuseUnless(option, !single, "with " + singleOption + " (it shapes the table of lines in a window;"
+                    + " " + singleOption + " prints its states' lines in vacuum and air)");
+        }
+        rules.refuseUnless("--temperature", transition != null, "without --transition (it sets the black-body"
+                + " temperature of the effective lifetimes --transition prints)");
+        rules.refuseUnless("--l-max", !atoms.alkalis().isEmpty(), "for one-electron ions (--species names no alkali"
+                + " atom; every l of a one-electron ion is listed)");
+        rules.refuseUnless("--multiplets", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron"
+                + " ion; alkali lines are listed by fine-structure level)");
+        rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion)");
+        if (single) {
             return single(atoms);
         }
         if (from == null || to == null) {
@@ -201,16 +216,18 @@ final class LinesCommand implements Callable<Integer> {
             throw new IllegalArgumentException((transition != null ? "--transition" : "--ladder")
                     + " needs exactly one alkali atom in --species, e.g. \"Rb-87 I\"");
         }
-        if (!(temperature > 0 && temperature < 1e5)) {
-            throw new IllegalArgumentException("--temperature must be between 0 and 1e5 K, got " + temperature);
-        }
+        OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e5),
+                "a temperature above 0 and below 1e5 K");
         AlkaliAtom atom = atoms.alkalis().get(0);
         Table table;
         if (transition != null) {
             State[] pair = AlkaliTables.pair(transition);
+            AlkaliTables.checkRange("--transition", atom, pair);
             table = AlkaliTables.transition(atom, pair[0], pair[1], temperature);
         } else {
-            table = AlkaliTables.ladder(atom, AlkaliTables.ladder(ladder));
+            State[] states = AlkaliTables.ladder(ladder);
+            AlkaliTables.checkRange("--ladder", atom, states);
+            table = AlkaliTables.ladder(atom, states);
         }
         table.write(spec.commandLine().getOut(), format);
         return 0;
