@@ -180,8 +180,8 @@ final class IdentifyCommand implements Callable<Integer> {
             if (rules.given("--instrument-fwhm")) {
                 throw new IllegalArgumentException("give --instrument-fwhm or --resolving-power, not both");
             }
-            OptionRules.range("--resolving-power", resolvingPower, 0, false, 1e9,
-                    "a resolving power lambda / FWHM above 0 and at most 1e9 (e.g. 5000)");
+            OptionRules.range("--resolving-power", resolvingPower, 1, true, 1e9,
+                    "a resolving power lambda / FWHM from 1 to 1e9 (e.g. 5000)");
         }
         if (searchVelocity != null) {
             OptionRules.range("--search-velocity", searchVelocity, 0, false, PhysicalConstants.C / 1e4 * 0.999999,
@@ -210,7 +210,8 @@ final class IdentifyCommand implements Callable<Integer> {
         double limitNm = shortest * 1e9 / 10;
         if (searchOffset > limitNm) {
             throw new IllegalArgumentException(String.format(Locale.ROOT, "--search-offset must be a positive width in"
-                    + " nm, at most a tenth of the shortest peak's wavelength (%.6g nm here), got %s nm", limitNm,
+                    + " nm, at most a tenth of the shortest peak's wavelength (%.6g nm here, in vacuum), got %s nm",
+                    limitNm,
                     OptionRules.show(searchOffset)));
         }
     }

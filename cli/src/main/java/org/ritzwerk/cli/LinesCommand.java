@@ -111,9 +111,7 @@ final class LinesCommand implements Callable<Integer> {
         if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
             throw new IllegalArgumentException("--n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
         }
-        if (!(minA >= 0) || Double.isInfinite(minA)) {
-            throw new IllegalArgumentException("--min-a must be a finite rate >= 0 s^-1, got " + minA);
-        }
+        OptionRules.range("--min-a", minA, 0, true, Double.MAX_VALUE, "a rate of 0 s^-1 or more (e.g. 1e6)");
         boolean air = AxisMedium.isAir(medium);
         Ions.Atoms atoms = ions.resolveAtoms(data.context());
         OptionRules rules = new OptionRules(spec);

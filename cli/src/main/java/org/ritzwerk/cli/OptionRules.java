@@ -22,11 +22,18 @@ final class OptionRules {
 
     /**
      * @param option an option name, e.g. {@code --l-max}
-     * @return whether the user gave it on the command line (a default value does not count)
+     * @return whether the user gave it on the command line, to this command or (an inherited option)
+     *         to a parent (a default value does not count)
      */
     boolean given(String option) {
-        CommandLine.ParseResult result = spec.commandLine().getParseResult();
-        return result != null && result.hasMatchedOption(option);
+        // An inherited option may be given before the subcommand's name, on the parent.
+        for (CommandSpec command = spec; command != null; command = command.parent()) {
+            CommandLine.ParseResult result = command.commandLine().getParseResult();
+            if (result != null && result.hasMatchedOption(option)) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /**

@@ -312,8 +312,8 @@ final class SynthCommand implements Callable<Integer> {
         if (pixels < 2 || pixels > 50_000_000) {
             throw new IllegalArgumentException("--pixels must be 2 to 50000000, got " + pixels);
         }
-        OptionRules.range("--resolving-power", resolvingPower, 0, false, 1e9,
-                "a resolving power lambda / FWHM above 0 and at most 1e9 (e.g. 5000)");
+        OptionRules.range("--resolving-power", resolvingPower, 1, true, 1e9,
+                "a resolving power lambda / FWHM from 1 to 1e9 (e.g. 5000)");
         OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e9), "a temperature above 0 and below 1e9 K");
         double maxSpeed = org.ritzwerk.constants.PhysicalConstants.C / 1e4;
         if (!(Math.abs(velocity) < maxSpeed)) {
@@ -443,9 +443,8 @@ final class SynthCommand implements Callable<Integer> {
                     throw new IllegalArgumentException("--abundance: '" + item.substring(eq + 1).strip()
                             + "' is not a number in '" + item + "'");
                 }
-                if (!(value > 0) || Double.isInfinite(value)) {
-                    throw new IllegalArgumentException("--abundance of " + symbol + " must be positive, got " + value);
-                }
+                OptionRules.range("--abundance of " + symbol, value, 0, false, Double.MAX_VALUE,
+                        "a positive finite number (relative to 1 for each other element)");
                 if (result.put(z, value) != null) {
                     throw new IllegalArgumentException("--abundance gives " + symbol + " twice");
                 }
@@ -470,9 +469,6 @@ final class SynthCommand implements Callable<Integer> {
                     break;
                 case "blackbody":
                     double t = continuumTemperature == null ? temperature : continuumTemperature;
-                    if (!(t > 0) || Double.isInfinite(t)) {
-                        throw new IllegalArgumentException("--continuum-temperature must be positive, got " + t);
-                    }
                     Medium axisMedium = AxisMedium.of(medium);
                     density = nm -> Continuum.planckPerWavelength(axisMedium.toVacuum(nm * 1e-9), t);
                     break;

@@ -201,7 +201,7 @@ public final class CalibrationFiles {
         } catch (IllegalArgumentException e) {
             throw invalid(source, e.getMessage());
         }
-        checkAcrossTheDetector(source, solution, pixels);
+        checkAcrossTheDetector(source, solution, pixels, covariance != null);
         return new Calibration(solution, pixels, description);
     }
 
@@ -210,11 +210,13 @@ public final class CalibrationFiles {
 
     /**
      * A solution read from a file must give every pixel of the detector a finite, positive
-     * wavelength below {@link #MAX_WAVELENGTH_NM} with a finite uncertainty, rising or falling
+     * wavelength below {@link #MAX_WAVELENGTH_NM} with a finite uncertainty (when the file gives a
+     * covariance; without one there is no uncertainty), rising or falling
      * throughout (a dispersion solution is monotonic); checked at every pixel up to a million
      * pixels, and at a million evenly spaced ones beyond.
      */
-    private static void checkAcrossTheDetector(String source, DispersionSolution solution, int pixels) {
+    private static void checkAcrossTheDetector(String source, DispersionSolution solution, int pixels,
+            boolean withCovariance) {
         int samples = Math.min(pixels, 1_000_000);
         double step = (pixels - 1) / (double) (samples - 1);
         double previous = Double.NaN;
@@ -229,7 +231,7 @@ public final class CalibrationFiles {
                         + String.format(java.util.Locale.ROOT, "%.6g nm", nm) : "no finite wavelength"));
             }
             double sigma = solution.wavelengthSigmaAt(p);
-            if (!(sigma >= 0 && sigma < MAX_WAVELENGTH_NM)) {
+            if (withCovariance && !(sigma >= 0 && sigma < MAX_WAVELENGTH_NM)) {
                 throw invalid(source, "the solution's uncertainty at pixel " + pixel(p) + " is not a finite number of"
                         + " nm below 1e9; check \"covariance_nm2\"");
             }
@@ -261,7 +263,7 @@ public final class CalibrationFiles {
     private static double number(String source, JsonNode root, String name) {
         JsonNode v = root.get(name);
         if (v == null || !v.isNumber() || !Double.isFinite(v.asDouble())) {
-            throw invalid(source, "\"" + name + "\" must be a finite number, got " + v);
+            throw invalid(source, "\"" + name + "\" must be a finite number, got " + shown(v));
         }
         return v.asDouble();
     }
@@ -274,11 +276,17 @@ public final class CalibrationFiles {
         double[] values = new double[array.size()];
         for (int i = 0; i < values.length; i++) {
             if (!array.get(i).isNumber() || !Double.isFinite(array.get(i).asDouble())) {
-                throw invalid(source, "\"" + name + "\"[" + i + "] must be a finite number, got " + array.get(i));
+                throw invalid(source, "\"" + name + "\"[" + i + "] must be a finite number, got " + shown(array.get(i)));
             }
             values[i] = array.get(i).asDouble();
         }
         return values;
+    }
+
+    /** A JSON value for a message; a number too large for a double is said so, not printed as an infinity. */
+    private static String shown(JsonNode value) {
+        return value != null && value.isNumber() && !Double.isFinite(value.asDouble())
+                ? "a number beyond the range of a double" : String.valueOf(value);
     }
 
     private static DataFileException invalid(String source, String message) {
