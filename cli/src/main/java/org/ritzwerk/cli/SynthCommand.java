@@ -208,6 +208,14 @@ final class SynthCommand implements Callable<Integer> {
         Ions.Atoms atoms = ions.species.isEmpty() ? new Ions.Atoms(List.of(), List.of())
                 : Ions.atoms(data.context(), ions.species, ions.model);
         List<Ions.Ion> resolved = atoms.ions();
+        OptionRules rules = new OptionRules(spec);
+        String noIon = "without a one-electron ion in --species (";
+        rules.refuseUnless("--model", !resolved.isEmpty(), noIon + "it is their level model; alkali atoms and --lines"
+                + " lists bring their own levels)");
+        rules.refuseUnless("--natural-widths", !resolved.isEmpty(), noIon + "natural widths are computed for their"
+                + " lines)");
+        rules.refuseUnless("--n-max", !ions.species.isEmpty(), "without --species (--lines lists bring their own"
+                + " lines)");
         if (resolved.isEmpty() && atoms.alkalis().isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
                     + " or both");
@@ -339,8 +347,6 @@ final class SynthCommand implements Callable<Integer> {
         }
         rules.refuseUnless("--read-noise", !noNoise, "with --no-noise");
         rules.refuseUnless("--seed", !noNoise, "with --no-noise");
-        rules.refuseUnless("--model", !ions.species.isEmpty(), "without --species (it is the level model of the"
-                + " one-electron ions; --lines lists bring their own positions)");
         if (electronDensity != null) {
             OptionRules.range("--electron-density", electronDensity, 0, false, 1e25,
                     "a density above 0 and at most 1e25 per cubic metre (the Stark fits' range)");

@@ -33,8 +33,12 @@ import org.junit.jupiter.api.io.TempDir;
  */
 class ContractFuzzTest {
 
-    /** Mutants per reader. */
-    private static final int MUTANTS = 15;
+    /**
+     * Mutants per reader; {@code -Dritzwerk.fuzz.mutants=N} (and {@code -Dritzwerk.fuzz.seed=S},
+     * added to every seed) runs a longer or different search by hand.
+     */
+    private static final int MUTANTS = Integer.getInteger("ritzwerk.fuzz.mutants", 12);
+    private static final long SEED = Long.getLong("ritzwerk.fuzz.seed", 0L);
 
     /** Numbers that break naive readers: huge, tiny, negative, not finite, beyond double, not numbers. */
     private static final String[] NASTY = {"NaN", "Infinity", "-Infinity", "1e308", "-1e308", "1e400", "-1", "0",
@@ -155,6 +159,43 @@ class ContractFuzzTest {
         fuzz(dir, "quantities.txt", QUANTITIES, 602, f -> args("convert", "--input", f, "--to", "THz", "--to", "nm"));
     }
 
+    /**
+     * The readers no command uses (synthetic-spectrum documents and truth tables, read back by
+     * library users): a mutant either reads or fails with the project's exception, whose message
+     * holds no NaN or Infinity the input did not.
+     */
+    @Test
+    void syntheticSpectrumAndTruthFiles(@TempDir Path dir) throws IOException {
+        Path json = dir.resolve("scene.json");
+        Path truth = dir.resolve("truth.csv");
+        CliTest.Run synth = CliTest.run("synth", "--species", "H", "--from", "640 nm", "--to", "670 nm", "--pixels", "30",
+                "--temperature", "10000", "--seed", "3", "--format", "json", "--out", json.toString(), "--truth",
+                truth.toString());
+        assertEquals(0, synth.code(), synth.err());
+        readerHolds(Files.readString(json), 801, text -> org.ritzwerk.refdata.SyntheticSpectrumFiles.readJson(text, "m"));
+        readerHolds(Files.readString(truth), 802, text -> org.ritzwerk.refdata.SpectrumLineFiles.read(text, "m"));
+    }
+
+    private static void readerHolds(String valid, long seed, java.util.function.Consumer<String> reader) {
+        reader.accept(valid);
+        Random random = new Random(seed + SEED);
+        for (int k = 0; k < MUTANTS; k++) {
+            String mutant = new String(mutate(valid.getBytes(StandardCharsets.UTF_8), random), StandardCharsets.UTF_8);
+            try {
+                reader.accept(mutant);
+            } catch (org.ritzwerk.RitzwerkException e) {
+                Set<String> inputTokens = tokens(mutant);
+                for (String token : tokens(e.getMessage())) {
+                    if ((token.contains("NaN") || token.contains("Infinity")) && !inputTokens.contains(token)) {
+                        throw new AssertionError("'" + token + "' that the input did not hold: " + e.getMessage());
+                    }
+                }
+            } catch (RuntimeException e) {
+                throw new AssertionError("not the project's input error, for the mutant:\n" + mutant, e);
+            }
+        }
+    }
+
     /** Numeric options of every command, each with the nasty values and seeded random ones. */
     @Test
     void numericOptions(@TempDir Path dir) throws IOException {
@@ -183,7 +224,7 @@ class ContractFuzzTest {
             {lines, "--n-max"}, {lines, "--min-a"}, {alkali, "--temperature"}, {alkali, "--l-max"},
             {new String[] {"convert", "656.28 nm", "--to", "THz"}, "--digits"},
             {new String[] {"convert", "--to", "THz"}, null}};
-        Random random = new Random(701);
+        Random random = new Random(701 + SEED);
         Map<Path, byte[]> before = snapshot(dir);
         for (Object[] c : cases) {
             String[] base = (String[]) c[0];
@@ -223,7 +264,7 @@ class ContractFuzzTest {
         Files.writeString(file, valid);
         CliTest.Run good = CliTest.run(command.apply(file.toString()));
         assertEquals(0, good.code(), name + " (the valid fixture): " + good.err());
-        Random random = new Random(seed);
+        Random random = new Random(seed + SEED);
         for (int k = 0; k < MUTANTS; k++) {
             byte[] mutant = mutate(valid.getBytes(StandardCharsets.UTF_8), random);
             Files.write(file, mutant);

@@ -73,7 +73,7 @@ class OptionRulesTest {
         refused(CliTest.run("calibrate", spectrum.toString(), "--apply", calibration(dir, "500,5,40").toString()),
                 "not monotonic");
         refused(CliTest.run("calibrate", spectrum.toString(), "--apply", calibration(dir, "500,1e400").toString()),
-                "\"coefficients_nm\"[1] must be a finite number, got a number beyond the range of a double");
+                "\"coefficients_nm\"[1] must be a finite number, got a number too large for a double");
         // The same file with sane coefficients applies.
         CliTest.Run good = CliTest.run("calibrate", spectrum.toString(), "--apply", calibration(dir, "500,5").toString());
         assertEquals(0, good.code(), good.err());
@@ -214,6 +214,19 @@ class OptionRulesTest {
         refused(CliTest.run(concat(base, "--continuum", "flat", "--continuum-temperature", "5000")),
                 "--continuum-temperature has no effect without --continuum blackbody");
         refused(CliTest.run(concat(base, "--no-noise", "--seed", "3")), "--seed has no effect with --no-noise");
+        String[] lamp = {"synth", "--lines", "lamp-ne-i", "--from", "600 nm air", "--to", "700 nm air", "--medium", "air",
+            "--temperature", "300", "--pixels", "100"};
+        refused(CliTest.run(concat(lamp, "--natural-widths")),
+                "--natural-widths has no effect without a one-electron ion in --species");
+        refused(CliTest.run(concat(lamp, "--n-max", "12")), "--n-max has no effect without --species");
+        refused(CliTest.run(concat(lamp, "--model", "bohr")), "--model has no effect without a one-electron ion");
+    }
+
+    @Test
+    void anAirModelWithoutAirIsRefused() {
+        refused(CliTest.run("convert", "656 nm", "--to", "THz", "--air", "ciddor1996"), "--air has no effect when no"
+                + " quantity and no --to is in air");
+        assertEquals(0, CliTest.run("convert", "656 nm", "--to", "nm air", "--air", "ciddor1996").code());
     }
 
     // --- 3. lines in the window whose populations underflow ---

@@ -263,7 +263,7 @@ public final class CalibrationFiles {
     private static double number(String source, JsonNode root, String name) {
         JsonNode v = root.get(name);
         if (v == null || !v.isNumber() || !Double.isFinite(v.asDouble())) {
-            throw invalid(source, "\"" + name + "\" must be a finite number, got " + shown(v));
+            throw invalid(source, "\"" + name + "\" must be a finite number, got " + TabularFiles.shown(v));
         }
         return v.asDouble();
     }
@@ -276,17 +276,11 @@ public final class CalibrationFiles {
         double[] values = new double[array.size()];
         for (int i = 0; i < values.length; i++) {
             if (!array.get(i).isNumber() || !Double.isFinite(array.get(i).asDouble())) {
-                throw invalid(source, "\"" + name + "\"[" + i + "] must be a finite number, got " + shown(array.get(i)));
+                throw invalid(source, "\"" + name + "\"[" + i + "] must be a finite number, got " + TabularFiles.shown(array.get(i)));
             }
             values[i] = array.get(i).asDouble();
         }
         return values;
-    }
-
-    /** A JSON value for a message; a number too large for a double is said so, not printed as an infinity. */
-    private static String shown(JsonNode value) {
-        return value != null && value.isNumber() && !Double.isFinite(value.asDouble())
-                ? "a number beyond the range of a double" : String.valueOf(value);
     }
 
     private static DataFileException invalid(String source, String message) {
