@@ -50,12 +50,13 @@ final class DataCommand implements Callable<Integer> {
     // Both options are inherited by 'show' and 'check', and picocli keeps one value for the command
     // and its subcommands: 'data --file F show ID' and 'data show ID --file F' are the same command.
     @Option(names = {"--file", "--data"}, paramLabel = "FILE", scope = CommandLine.ScopeType.INHERIT,
-            description = {"Add a file of your own: a line list or level table (CSV or JSON), a quantum-defect",
-                "set or an isotope table. Repeatable."})
+            description = {"Add a file of your own: a line list or level table (CSV or JSON),",
+                "a quantum-defect set or an isotope table. Repeatable."})
     List<Path> files = new ArrayList<>();
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text", scope = CommandLine.ScopeType.INHERIT,
-            description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
+            description = {"text (aligned table), csv or json (one object per line); with 'show', a line list",
+                "or level table in csv or json is written in its file format. Default: ${DEFAULT-VALUE}."})
     Table.Format format;
 
     @Override
