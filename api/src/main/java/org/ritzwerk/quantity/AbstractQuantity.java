@@ -113,6 +113,10 @@ abstract class AbstractQuantity {
             throw new IllegalArgumentException(what + " must be positive, got " + DecimalText.shortest(value)
                     + " " + unit.symbol());
         }
+        if (value != 0 && unit.toSi(value) == 0) {
+            throw new IllegalArgumentException(what + " of " + DecimalText.shortest(value) + " " + unit.symbol()
+                    + " is too small for a double in SI units");
+        }
     }
 
     /**

@@ -242,6 +242,47 @@ class ContractFuzzTest {
         }
     }
 
+    // --- what the fuzzing found, kept as plain regression tests ---
+
+    @Test
+    void aContinuumWithHugeDensitiesIsScaledNotOverflowed(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("continuum.csv");
+        Files.writeString(file, continuum().replace("690,2.0", "690,1e308"));
+        CliTest.Run run = CliTest.run("synth", "--species", "H", "--from", "600 nm", "--to", "700 nm", "--pixels", "50",
+                "--temperature", "10000", "--no-noise", "--continuum-file", file.toString());
+        assertEquals(0, run.code(), run.err());
+        assertFalse(run.out().contains("Infinity") || run.out().contains("NaN"), run.out());
+    }
+
+    @Test
+    void numbersBeyondADoubleAreNamedInWords(@TempDir Path dir) throws IOException {
+        Path peaks = dir.resolve("peaks.json");
+        Files.writeString(peaks, PEAKS_JSON.replace("\"formatVersion\": 1", "\"formatVersion\": 1e400"));
+        CliTest.Run version = CliTest.run("identify", peaks.toString(), "--species", "H");
+        assertEquals(2, version.code(), version.err());
+        assertTrue(version.err().contains("'formatVersion' must be 1, got a number too large for a double"),
+                version.err());
+        CliTest.Run overflow = CliTest.run("convert", "1e-300 nm", "--to", "THz");
+        assertEquals(2, overflow.code(), overflow.err());
+        assertTrue(overflow.err().contains("got a value too large for a double") && !overflow.err().contains("Infinity"),
+                overflow.err());
+        CliTest.Run underflow = CliTest.run("convert", "4.9e-324 nm", "--to", "THz");
+        assertEquals(2, underflow.code(), underflow.err());
+        assertTrue(underflow.err().contains(" nm is too small for a double in SI units"), underflow.err());
+    }
+
+    @Test
+    void anUnreadableCorePolarizabilityIsReportedOnce(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("defects.csv");
+        String valid = resource("rydberg/quantum-defects-rb-87.csv");
+        Files.writeString(file, valid.replaceFirst("# core-dipole-polarizability-au: [^\\n]*",
+                "# core-dipole-polarizability-au: heavy"));
+        CliTest.Run run = CliTest.run("data", "check", file.toString());
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().startsWith("1 problem in ") && run.err().contains("core-dipole-polarizability-au is not a"
+                + " finite number: 'heavy'") && !run.err().contains("NaN"), run.err());
+    }
+
     // --- the machinery ---
 
     private static String[] args(String... args) {

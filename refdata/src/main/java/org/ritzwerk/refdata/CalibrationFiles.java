@@ -169,7 +169,8 @@ public final class CalibrationFiles {
         JsonNode pixelCount = root.path("pixels");
         int pixels = pixelCount.isIntegralNumber() && pixelCount.canConvertToInt() ? pixelCount.asInt() : -1;
         if (pixels < 2) {
-            throw invalid(source, "\"pixels\" must be a whole number of at least 2, got " + root.get("pixels"));
+            throw invalid(source, "\"pixels\" must be a whole number of at least 2, got "
+                    + TabularFiles.shown(root.get("pixels")));
         }
         double[] valid = numbers(source, root, "valid_pixels");
         if (valid.length != 2) {

@@ -551,7 +551,7 @@ final class TabularFiles {
                     format = value.isString() ? value.asString() : value.toString();
                     formatLine = line;
                 } else if (name.equals("formatVersion")) {
-                    version = value.isIntegralNumber() ? (Object) value.asInt() : value.toString();
+                    version = value.isIntegralNumber() ? (Object) value.asInt() : shown(value);
                 } else {
                     String key = headerKeyOf(spec, name);
                     if (key == null) {
