@@ -81,14 +81,24 @@ final class ContinuumFile {
         double[] xs = Arrays.copyOf(x, n);
         double[] ys = Arrays.copyOf(y, n);
         // Only the shape counts (the continuum is scaled to --continuum-counts): divide by the
-        // largest density so that integrating huge but finite densities cannot overflow.
+        // largest density the spectrum sees (the rows from the last one at or below lo to the
+        // first one at or above hi), so that huge but finite densities cannot overflow and a
+        // huge one far outside the range cannot leave the rest below the smallest double.
+        int first = 0;
+        while (first + 1 < n && xs[first + 1] <= lo) {
+            first++;
+        }
+        int last = n - 1;
+        while (last - 1 >= 0 && xs[last - 1] >= hi) {
+            last--;
+        }
         double top = 0;
-        for (double v : ys) {
-            top = Math.max(top, v);
+        for (int k = first; k <= last; k++) {
+            top = Math.max(top, ys[k]);
         }
         if (top > 0) {
             for (int k = 0; k < ys.length; k++) {
-                ys[k] /= top;
+                ys[k] = Math.min(ys[k] / top, Double.MAX_VALUE);
             }
         }
         return nm -> {

@@ -252,6 +252,13 @@ class ContractFuzzTest {
                 "--temperature", "10000", "--no-noise", "--continuum-file", file.toString());
         assertEquals(0, run.code(), run.err());
         assertFalse(run.out().contains("Infinity") || run.out().contains("NaN"), run.out());
+        // A huge density beyond the range does not push the densities inside below the smallest double.
+        Files.writeString(file, continuum().replace("710,2.2", "710,1e308")
+                .replaceAll("\n(6\\d0),[0-9.]+", "\n$1,1e-300"));
+        CliTest.Run far = CliTest.run("synth", "--species", "H", "--from", "600 nm", "--to", "700 nm", "--pixels", "50",
+                "--temperature", "10000", "--no-noise", "--continuum-file", file.toString());
+        assertEquals(0, far.code(), far.err());
+        assertFalse(far.out().contains("Infinity") || far.out().contains("NaN"), far.out());
     }
 
     @Test
