@@ -55,8 +55,9 @@ final class DataCommand implements Callable<Integer> {
     List<Path> files = new ArrayList<>();
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text", scope = CommandLine.ScopeType.INHERIT,
-            description = {"text (aligned table), csv or json (one object per line); with 'show', a line list",
-                "or level table in csv or json is written in its file format. Default: ${DEFAULT-VALUE}."})
+            description = {"text (aligned table), csv or json (one object per line);",
+                "'show' writes a line list or level table in csv or json in its",
+                "file format. Default: ${DEFAULT-VALUE}."})
     Table.Format format;
 
     @Override
