@@ -107,12 +107,34 @@ abstract class AbstractQuantity {
     static void checkValue(String what, double value, Unit unit, boolean positive) {
         if (!Double.isFinite(value) || !Double.isFinite(unit.toSi(value))) {
             throw new IllegalArgumentException(what + " must be a finite number of " + unit.symbol() + ", got "
-                    + value);
+                    + shown(value) + (Double.isFinite(value) ? " " + unit.symbol() + ", which overflows in SI" : ""));
         }
         if (positive && !(value > 0)) {
             throw new IllegalArgumentException(what + " must be positive, got " + DecimalText.shortest(value)
                     + " " + unit.symbol());
         }
+        if (value != 0 && unit.toSi(value) == 0) {
+            throw new IllegalArgumentException(what + " of " + DecimalText.shortest(value) + " " + unit.symbol()
+                    + " is too small for a double in SI units");
+        }
+    }
+
+    /**
+     * A value for a message: the shortest decimal that reads back to it, or words for NaN and the
+     * infinities (which a message never prints as such; they come from the user's or a
+     * conversion's overflow).
+     *
+     * @param value the value
+     * @return its text
+     */
+    static String shown(double value) {
+        if (Double.isNaN(value)) {
+            return "a value that is not a number";
+        }
+        if (Double.isInfinite(value)) {
+            return (value > 0 ? "" : "minus ") + "a value too large for a double";
+        }
+        return DecimalText.shortest(value);
     }
 
     /**
@@ -123,7 +145,7 @@ abstract class AbstractQuantity {
     static double checkedUncertainty(String what, double uncertainty, Unit unit) {
         if (!Double.isFinite(uncertainty) || uncertainty < 0) {
             throw new IllegalArgumentException("standard uncertainty of the " + what
-                    + " must be a finite number >= 0 " + unit.symbol() + ", got " + uncertainty);
+                    + " must be a finite number >= 0 " + unit.symbol() + ", got " + shown(uncertainty));
         }
         return Math.abs(unit.toSi(uncertainty));
     }

@@ -47,7 +47,7 @@ public final class Energy extends AbstractQuantity implements SpectralQuantity {
 
     static Energy create(double joules, double uncertaintyJoules) {
         if (!Double.isFinite(joules)) {
-            throw new IllegalArgumentException("energy must be finite, got " + joules + " J");
+            throw new IllegalArgumentException("energy must be finite, got " + shown(joules) + (Double.isFinite(joules) ? " J" : ""));
         }
         return new Energy(joules, uncertaintyJoules);
     }

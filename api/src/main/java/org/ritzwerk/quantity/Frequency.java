@@ -42,7 +42,7 @@ public final class Frequency extends AbstractQuantity implements SpectralQuantit
     static Frequency create(double hertz, double uncertaintyHertz) {
         if (!(hertz > 0) || !Double.isFinite(hertz)) {
             throw new ConversionException(ConversionException.NOT_A_PHOTON,
-                    "a photon frequency must be finite and positive, got " + hertz + " Hz");
+                    "a photon frequency must be finite and positive, got " + shown(hertz) + (Double.isFinite(hertz) ? " Hz" : ""));
         }
         return new Frequency(hertz, uncertaintyHertz);
     }

@@ -42,7 +42,7 @@ public final class Temperature extends AbstractQuantity implements Quantity {
 
     static Temperature create(double kelvin, double uncertaintyKelvin) {
         if (!(kelvin >= 0) || !Double.isFinite(kelvin)) {
-            throw new IllegalArgumentException("temperature must be finite and >= 0 K, got " + kelvin + " K");
+            throw new IllegalArgumentException("temperature must be finite and >= 0 K, got " + shown(kelvin) + (Double.isFinite(kelvin) ? " K" : ""));
         }
         return new Temperature(kelvin, uncertaintyKelvin);
     }

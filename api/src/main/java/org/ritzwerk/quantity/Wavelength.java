@@ -65,7 +65,7 @@ public final class Wavelength extends AbstractQuantity implements SpectralQuanti
     private static Wavelength create(double metres, double uncertaintyMetres, Medium medium) {
         Objects.requireNonNull(medium, "medium");
         if (!(metres > 0) || !Double.isFinite(metres)) {
-            throw new IllegalArgumentException("wavelength must be finite and positive, got " + metres + " m");
+            throw new IllegalArgumentException("wavelength must be finite and positive, got " + shown(metres) + (Double.isFinite(metres) ? " m" : ""));
         }
         return new Wavelength(metres, uncertaintyMetres, medium);
     }

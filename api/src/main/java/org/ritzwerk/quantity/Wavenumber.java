@@ -43,7 +43,7 @@ public final class Wavenumber extends AbstractQuantity implements SpectralQuanti
 
     static Wavenumber create(double perMetre, double uncertaintyPerMetre) {
         if (!Double.isFinite(perMetre)) {
-            throw new IllegalArgumentException("wavenumber must be finite, got " + perMetre + " m-1");
+            throw new IllegalArgumentException("wavenumber must be finite, got " + shown(perMetre) + (Double.isFinite(perMetre) ? " m-1" : ""));
         }
         return new Wavenumber(perMetre, uncertaintyPerMetre);
     }

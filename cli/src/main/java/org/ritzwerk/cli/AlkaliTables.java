@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import java.util.List;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
@@ -51,6 +52,29 @@ final class AlkaliTables {
             return State.parse(text.strip());
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException(option + ": " + e.getMessage(), e);
+        }
+    }
+
+    /**
+     * The states of --transition and --ladder must lie in the documented range of n of
+     * {@code levels} and {@code lines} (at most {@link HydrogenLikeLines#MAX_N}) and exist in the
+     * atom (n not below the lowest level of its l).
+     *
+     * @param option the option, for the message
+     * @param atom   the atom
+     * @param states the states as given
+     */
+    static void checkRange(String option, AlkaliAtom atom, State[] states) {
+        for (State state : states) {
+            if (state.n() > HydrogenLikeLines.MAX_N) {
+                throw new IllegalArgumentException(option + ": " + state.notation() + " has n = " + state.n()
+                        + "; states are computed for n up to " + HydrogenLikeLines.MAX_N + " (as --n-max)");
+            }
+            if (state.n() < atom.lowestN(state.l())) {
+                throw new IllegalArgumentException(option + ": " + atom.species().notation() + " has no "
+                        + state.notation() + " level: the lowest n of l = " + state.l() + " is "
+                        + atom.lowestN(state.l()) + " (the lower shells are filled by the core)");
+            }
         }
     }
 

@@ -132,6 +132,7 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
+        checkOptions();
         checkOutputs();
         SpectrumFiles.Spectrum spectrum = SpectrumFiles.read(spectrumFile);
         if (apply != null) {
@@ -167,6 +168,36 @@ final class CalibrateCommand implements Callable<Integer> {
             batch.commit();
         }
         return 0;
+    }
+
+    /**
+     * Refuses, before any work, numbers outside their range and options that would have no
+     * effect: with --apply every calibration option (a saved solution is applied as it is), and
+     * --max-degree with a fixed --degree.
+     */
+    private void checkOptions() {
+        OptionRules rules = new OptionRules(spec);
+        if (apply != null) {
+            for (String option : new String[] {"--lamp", "--lines", "--medium", "--from", "--to", "--dispersion-range",
+                "--degree", "--max-degree", "--threshold", "--saturation", "--tolerance", "--min-matched", "--clip",
+                "--plot", "--format", "--data"}) {
+                rules.refuseUnless(option, false, "with --apply (the saved solution is applied as it is; "
+                        + "--out is the only option --apply takes)");
+            }
+            return;
+        }
+        rules.refuseUnless("--max-degree", degree.equals("auto"), "with --degree " + degree
+                + " (it bounds the degree --degree auto may choose)");
+        if (maxDegree < 1 || maxDegree > 9) {
+            throw new IllegalArgumentException("--max-degree must be a whole number from 1 to 9, got " + maxDegree);
+        }
+        OptionRules.range("--threshold", threshold, 0, false, 1e12, "a signal-to-noise ratio above 0 (e.g. 5)");
+        OptionRules.range("--tolerance", tolerance, 0, false, 1e9, "a distance in pixels above 0 (e.g. 3)");
+        OptionRules.range("--min-matched", minMatched, 0, true, 1, "a fraction from 0 to 1 (e.g. 0.6)");
+        OptionRules.range("--clip", clip, 1, true, 1e12, "a number of standard deviations of at least 1 (e.g. 3.5)");
+        if (saturation != null) {
+            OptionRules.range("--saturation", saturation, 0, false, 1e15, "a number of counts above 0 and at most 1e15");
+        }
     }
 
     /**
@@ -225,6 +256,11 @@ final class CalibrateCommand implements Callable<Integer> {
                 dMax = Double.parseDouble(parts[1].strip());
             } catch (NumberFormatException e) {
                 throw new IllegalArgumentException("--dispersion-range: '" + dispersionRange + "' is not two numbers");
+            }
+            if (!(dMin >= -1000 && dMin < dMax && dMax <= 1000)) {
+                throw new IllegalArgumentException("--dispersion-range must be MIN,MAX in nm per pixel with MIN below"
+                        + " MAX, both from -1000 to 1000 (negative when wavelength falls with pixel), got "
+                        + OptionRules.show(dMin) + "," + OptionRules.show(dMax));
             }
         }
         try {

@@ -10,7 +10,7 @@ import java.util.function.DoubleUnaryOperator;
 
 /**
  * A continuum of the user's own: a CSV file with {@code #} comment lines, a header
- * {@code wavelength_nm,density} and rows with rising wavelengths (axis medium) and densities
+ * {@code wavelength_nm,density} and rows with rising positive wavelengths (axis medium) and densities
  * that are finite and not negative, in any unit (only the shape matters). Between rows the
  * density is linear.
  */
@@ -23,7 +23,7 @@ final class ContinuumFile {
      * @param file the file
      * @param lo   the spectrum's first pixel edge, nm; the file must reach it
      * @param hi   the last pixel edge, nm; the file must reach it
-     * @return the density as a function of wavelength in nm
+     * @return the density as a function of wavelength in nm, divided by its largest value
      * @throws IOException when the file cannot be read
      * @throws IllegalArgumentException naming the file, line and field of the first bad row
      */
@@ -62,6 +62,9 @@ final class ContinuumFile {
             if (y[n] < 0) {
                 throw new IllegalArgumentException(where + "density must not be negative, got " + cells[1].strip());
             }
+            if (!(x[n] > 0)) {
+                throw new IllegalArgumentException(where + "wavelength_nm must be positive, got " + cells[0].strip());
+            }
             if (n > 0 && !(x[n] > x[n - 1])) {
                 throw new IllegalArgumentException(where + "wavelength_nm must rise from row to row, got "
                         + cells[0].strip() + " after " + x[n - 1]);
@@ -77,6 +80,27 @@ final class ContinuumFile {
         }
         double[] xs = Arrays.copyOf(x, n);
         double[] ys = Arrays.copyOf(y, n);
+        // Only the shape counts (the continuum is scaled to --continuum-counts): divide by the
+        // largest density the spectrum sees (the rows from the last one at or below lo to the
+        // first one at or above hi), so that huge but finite densities cannot overflow and a
+        // huge one far outside the range cannot leave the rest below the smallest double.
+        int first = 0;
+        while (first + 1 < n && xs[first + 1] <= lo) {
+            first++;
+        }
+        int last = n - 1;
+        while (last - 1 >= 0 && xs[last - 1] >= hi) {
+            last--;
+        }
+        double top = 0;
+        for (int k = first; k <= last; k++) {
+            top = Math.max(top, ys[k]);
+        }
+        if (top > 0) {
+            for (int k = 0; k < ys.length; k++) {
+                ys[k] = Math.min(ys[k] / top, Double.MAX_VALUE);
+            }
+        }
         return nm -> {
             int k = Arrays.binarySearch(xs, nm);
             if (k >= 0) {

@@ -100,6 +100,15 @@ final class ConvertCommand implements Callable<Integer> {
         if (values.isEmpty()) {
             throw new IllegalArgumentException("nothing to convert: give a QUANTITY or --input FILE");
         }
+        boolean air = false;
+        for (String given : inputs) {
+            air |= given.toLowerCase(java.util.Locale.ROOT).contains("air");
+        }
+        for (String target : targets) {
+            air |= target.toLowerCase(java.util.Locale.ROOT).contains("air");
+        }
+        new OptionRules(spec).refuseUnless("--air", air, "when no quantity and no --to is in air (it says what a plain"
+                + " 'air' means)");
         JsonMapper json = format == Format.json ? JsonMapper.builder().build() : null;
         for (int i = 0; i < values.size(); i++) {
             for (Target target : parsedTargets) {

@@ -16,10 +16,12 @@ import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.LevelListFiles;
 import org.ritzwerk.refdata.LineListFiles;
 import org.ritzwerk.refdata.UserFiles;
+import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
+import picocli.CommandLine.ParentCommand;
 import picocli.CommandLine.Spec;
 
 /** {@code ritzwerk data}: the reference data sets, their sources, and checks of user files. */
@@ -45,13 +47,17 @@ final class DataCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = {"--file", "--data"}, paramLabel = "FILE",
-            description = {"Add a file of your own: a line list or level table (CSV or JSON), a quantum-defect",
-                "set or an isotope table. Repeatable."})
+    // Both options are inherited by 'show' and 'check', and picocli keeps one value for the command
+    // and its subcommands: 'data --file F show ID' and 'data show ID --file F' are the same command.
+    @Option(names = {"--file", "--data"}, paramLabel = "FILE", scope = CommandLine.ScopeType.INHERIT,
+            description = {"Add a file of your own: a line list or level table (CSV or JSON),",
+                "a quantum-defect set or an isotope table. Repeatable."})
     List<Path> files = new ArrayList<>();
 
-    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
-            description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text", scope = CommandLine.ScopeType.INHERIT,
+            description = {"text (aligned table), csv or json (one object per line);",
+                "'show' writes a line list or level table in csv or json in its",
+                "file format. Default: ${DEFAULT-VALUE}."})
     Table.Format format;
 
     @Override
@@ -88,19 +94,16 @@ final class DataCommand implements Callable<Integer> {
         @Spec
         CommandSpec spec;
 
+        @ParentCommand
+        DataCommand parent;
+
         @Parameters(paramLabel = "ID", description = "The data set id, as 'ritzwerk data' lists it.")
         String id;
 
-        @Option(names = {"--file", "--data"}, paramLabel = "FILE",
-                description = "Add a file of your own (any format 'data --file' takes). Repeatable.")
-        List<Path> files = new ArrayList<>();
-
-        @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
-                description = "text (table with a header), csv or json. Default: ${DEFAULT-VALUE}.")
-        Table.Format format;
-
         @Override
         public Integer call() {
+            List<Path> files = parent.files;
+            Table.Format format = parent.format;
             DataRegistry registry = registry(files);
             DataSet set = registry.load(id);
             PrintWriter out = spec.commandLine().getOut();
@@ -199,11 +202,18 @@ final class DataCommand implements Callable<Integer> {
         @Spec
         CommandSpec spec;
 
+        @ParentCommand
+        DataCommand parent;
+
         @Parameters(paramLabel = "FILE", arity = "1..*", description = "Files to check.")
         List<Path> files = new ArrayList<>();
 
         @Override
         public Integer call() {
+            OptionRules rules = new OptionRules(spec);
+            rules.refuseUnless("--file", false, "with 'data check' (give the files to check after 'check')");
+            rules.refuseUnless("--data", false, "with 'data check' (give the files to check after 'check')");
+            rules.refuseUnless("--format", false, "with 'data check' (it prints one line per file)");
             int code = 0;
             for (Path file : files) {
                 try {

@@ -8,6 +8,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
 import org.ritzwerk.engine.identify.IdentificationSearch;
@@ -119,30 +120,14 @@ final class IdentifyCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        if (excitationTemperature != null && !(excitationTemperature > 0 && excitationTemperature < 1e9)) {
-            throw new IllegalArgumentException("--excitation-temperature must be a positive number of kelvin, got "
-                    + excitationTemperature);
-        }
-        if (plasma && components) {
-            throw new IllegalArgumentException("--plasma works on n -> n' multiplets; leave out --components");
-        }
-        if (!(instrumentFwhm >= 0) || Double.isInfinite(instrumentFwhm)) {
-            throw new IllegalArgumentException("--instrument-fwhm must be a finite width >= 0 nm, got " + instrumentFwhm);
-        }
-        if (species.isEmpty() && lineSets.isEmpty()) {
-            throw new IllegalArgumentException("give candidate lines: --species (one-electron ions) and/or --lines");
-        }
-        if (searchVelocity != null && (!(searchVelocity > 0) || searchVelocity >= PhysicalConstants.C / 1e4)) {
-            throw new IllegalArgumentException("--search-velocity must be positive and below c/10 (km/s), got "
-                    + searchVelocity);
-        }
-        if (searchOffset != null && (!(searchOffset > 0) || Double.isInfinite(searchOffset))) {
-            throw new IllegalArgumentException("--search-offset must be a positive width in nm, got " + searchOffset);
-        }
+        checkOptions();
         PeakFiles.Peaks read = PeakFiles.read(peaksFile);
         double[] sigmas = read.allUncertain() ? read.uncertainties() : null;
         PeakList peaks = PeakList.of(read.positions(), sigmas, read.allIntense() ? read.intensities() : null,
                 read.unit(), read.medium());
+        if (searchOffset != null) {
+            checkOffset(peaks);
+        }
         Tolerance tol = tolerance(read.allUncertain());
         if (tol.kind() == Tolerance.Kind.K_SIGMA) {
             refuseZeroUncertainties(read, peaksFile);
@@ -170,6 +155,91 @@ final class IdentifyCommand implements Callable<Integer> {
         write(read, report.identification(), report.lines(), report.velocity().orElse(null),
                 report.offset().orElse(null));
         return 0;
+    }
+
+    /** Every option's range, and the options that would have no effect together, before any work. */
+    private void checkOptions() {
+        OptionRules rules = new OptionRules(spec);
+        if (species.isEmpty() && lineSets.isEmpty()) {
+            throw new IllegalArgumentException("give candidate lines: --species (one-electron ions) and/or --lines");
+        }
+        if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
+            throw new IllegalArgumentException("--n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
+        }
+        rules.refuseUnless("--instrument-fwhm", plasma, "without --plasma (it is the spectrometer width the plasma"
+                + " diagnostics take out)");
+        rules.refuseUnless("--resolving-power", plasma, "without --plasma (it sets the spectrometer width the plasma"
+                + " diagnostics take out)");
+        String noSpecies = "without --species (it applies to the lines the engine computes, not to --lines lists)";
+        rules.refuseUnless("--model", !species.isEmpty(), noSpecies);
+        rules.refuseUnless("--n-max", !species.isEmpty(), noSpecies);
+        rules.refuseUnless("--components", !species.isEmpty(), noSpecies);
+        rules.refuseUnless("--excitation-temperature", !species.isEmpty(), noSpecies);
+        if (excitationTemperature != null) {
+            OptionRules.range("--excitation-temperature", excitationTemperature, 0, false, 1e9,
+                    "a temperature above 0 and at most 1e9 K");
+        }
+        if (plasma && components) {
+            throw new IllegalArgumentException("--plasma works on n -> n' multiplets; leave out --components");
+        }
+        OptionRules.range("--instrument-fwhm", instrumentFwhm, 0, true, 1e6, "a width from 0 to 1e6 nm");
+        if (resolvingPower != null) {
+            if (rules.given("--instrument-fwhm")) {
+                throw new IllegalArgumentException("give --instrument-fwhm or --resolving-power, not both");
+            }
+            OptionRules.range("--resolving-power", resolvingPower, 1, true, 1e9,
+                    "a resolving power lambda / FWHM from 1 to 1e9 (e.g. 5000)");
+        }
+        if (searchVelocity != null) {
+            OptionRules.range("--search-velocity", searchVelocity, 0, false, PhysicalConstants.C / 1e4 * 0.999999,
+                    String.format(Locale.ROOT, "a speed above 0 and below a tenth of the speed of light (%.0f km/s)",
+                            PhysicalConstants.C / 1e4));
+        }
+        if (searchOffset != null) {
+            OptionRules.range("--search-offset", searchOffset, 0, false, Double.MAX_VALUE,
+                    "a positive width in nm, at most a tenth of the shortest peak's wavelength");
+        }
+        if (tolerance != null) {
+            checkTolerance(tolerance);
+        }
+    }
+
+    /**
+     * An offset must stay small against the wavelengths: one of a tenth of the shortest peak's
+     * wavelength already moves a line past its neighbours of the same series (the same bound as
+     * the velocity search's c / 10).
+     */
+    private void checkOffset(PeakList peaks) {
+        double shortest = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < peaks.size(); i++) {
+            shortest = Math.min(shortest, peaks.wavelength(i));
+        }
+        double limitNm = shortest * 1e9 / 10;
+        if (searchOffset > limitNm) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "--search-offset must be a positive width in"
+                    + " nm, at most a tenth of the shortest peak's wavelength (%.6g nm here, in vacuum), got %s nm",
+                    limitNm,
+                    OptionRules.show(searchOffset)));
+        }
+    }
+
+    /**
+     * The number of a --tolerance must be finite and positive; refused here in the user's own unit
+     * (the library's message would name the value in metres or as a fraction).
+     */
+    private static void checkTolerance(String text) {
+        java.util.regex.Matcher m = java.util.regex.Pattern
+                .compile("\\s*(?:[Rr]\\s*=\\s*)?([-+]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][-+]?\\d+)?|[-+]?NaN|[-+]?Infinity)"
+                        + "\\s*(.*)").matcher(text);
+        if (!m.matches()) {
+            return; // Tolerance.parse says what forms it takes
+        }
+        double value = Double.parseDouble(m.group(1));
+        if (!(value > 0) || Double.isInfinite(value)) {
+            throw new IllegalArgumentException("--tolerance must be a positive finite number with its unit: \"5 sigma\","
+                    + " a width such as \"0.02 nm\" or \"0.5 cm-1\", \"20 ppm\" or a resolving power \"R=20000\"; got "
+                    + (Double.isFinite(value) ? "'" + text.strip() + "'" : OptionRules.show(value)));
+        }
     }
 
     private Tolerance tolerance(boolean uncertain) {
@@ -223,10 +293,6 @@ final class IdentifyCommand implements Callable<Integer> {
     }
 
     private void plasma(PeakFiles.Peaks read, IdentificationSearch.Report report, Candidates candidates) {
-        if (resolvingPower != null && (instrumentFwhm != 0 || !(resolvingPower > 0)
-                || Double.isInfinite(resolvingPower))) {
-            throw new IllegalArgumentException("give --instrument-fwhm or a positive --resolving-power, not both");
-        }
         PlasmaEstimate estimate = resolvingPower == null ? PlasmaEstimate.defaults().withInstrumentFwhm(instrumentFwhm)
                 : PlasmaEstimate.defaults().withResolvingPower(resolvingPower);
         if (excitationTemperature != null) {
@@ -295,10 +361,10 @@ final class IdentifyCommand implements Callable<Integer> {
         summary.println(String.format(Locale.ROOT, "%d peaks: %d matched, %d ambiguous, %d unexplained%s",
                 read.size(), result.count(Identification.MATCHED), result.count(Identification.AMBIGUOUS),
                 result.count(Identification.UNEXPLAINED),
-                (fit == null ? "" : String.format(Locale.ROOT, "; velocity %.3f +- %.3f km/s from %d lines",
-                        fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, fit.matches()))
-                        + (offsetFit == null ? "" : String.format(Locale.ROOT, "; offset %.6f +- %.6f nm from %d lines",
-                                offsetFit.value() * 1e9, offsetFit.uncertainty() * 1e9, offsetFit.matches()))));
+                (fit == null ? "" : shift("velocity", fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, "%.3f",
+                        "km/s", fit.matches()))
+                        + (offsetFit == null ? "" : shift("offset", offsetFit.value() * 1e9,
+                                offsetFit.uncertainty() * 1e9, "%.6f", "nm", offsetFit.matches()))));
         int[] missing = result.missingStrongLines();
         if (missing.length > 0) {
             StringBuilder text = new StringBuilder("missing strong lines: ");
@@ -319,5 +385,23 @@ final class IdentifyCommand implements Callable<Integer> {
                             : String.format(Locale.ROOT, " (confidence %.2f)", presence.confidence())));
         }
         summary.flush();
+    }
+
+    /**
+     * The summary's account of a velocity or offset search. No matched line: no value is claimed
+     * (the search's centre is not a measurement); one line: the value without an uncertainty,
+     * which one line cannot give.
+     */
+    private static String shift(String what, double value, double uncertainty, String format, String unit, int lines) {
+        if (lines == 0) {
+            return "; no " + what + " in the searched range lets any line match, so none is given";
+        }
+        String number = String.format(Locale.ROOT, format, value);
+        if (lines == 1 || !Double.isFinite(uncertainty)) {
+            return "; " + what + " " + number + " " + unit + " from " + lines + " line" + (lines == 1 ? "" : "s")
+                    + (lines == 1 ? " (one line gives no uncertainty)" : " (uncertainty not determined)");
+        }
+        return "; " + what + " " + number + " +- " + String.format(Locale.ROOT, format, uncertainty) + " " + unit
+                + " from " + lines + " lines";
     }
 }

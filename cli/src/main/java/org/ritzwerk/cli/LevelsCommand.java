@@ -90,14 +90,25 @@ final class LevelsCommand implements Callable<Integer> {
                 columns.add(Table.Column.number("effective_lifetime_s", "at T s", "%.5e"));
             }
         }
-        if (temperature != null && !(temperature > 0 && temperature < 1e5)) {
-            throw new IllegalArgumentException("--temperature must be between 0 and 1e5 K, got " + temperature);
+        if (temperature != null) {
+            OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e5),
+                    "a temperature above 0 and below 1e5 K");
         }
         if (lMax < 0 || lMax > 50) {
             throw new IllegalArgumentException("--l-max must be 0 to 50, got " + lMax);
         }
         double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
         Ions.Atoms atoms = ions.resolveAtoms(data.context());
+        OptionRules rules = new OptionRules(spec);
+        boolean alkali = !atoms.alkalis().isEmpty();
+        rules.refuseUnless("--temperature", lifetimes, "without --lifetimes (it sets the black-body temperature of the"
+                + " effective lifetimes)");
+        rules.refuseUnless("--temperature", alkali, "for one-electron ions (--species names no alkali atom; the"
+                + " effective lifetimes are computed for alkali atoms)");
+        rules.refuseUnless("--l-max", alkali, "for one-electron ions (--species names no alkali atom; every l of a"
+                + " one-electron ion up to n - 1 is listed)");
+        rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion;"
+                + " the model column says where each alkali energy comes from)");
         if (lifetimes) {
             WorkEstimate.hydrogenLifetimes(nMax, atoms.ions().size()).ifPresent(note -> {
                 spec.commandLine().getErr().println(note);

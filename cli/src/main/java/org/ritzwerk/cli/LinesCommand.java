@@ -159,12 +159,25 @@ final class LinesCommand implements Callable<Integer> {
         if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
             throw new IllegalArgumentException("--n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
         }
-        if (!(minA >= 0) || Double.isInfinite(minA)) {
-            throw new IllegalArgumentException("--min-a must be a finite rate >= 0 s^-1, got " + minA);
-        }
+        OptionRules.range("--min-a", minA, 0, true, Double.MAX_VALUE, "a rate of 0 s^-1 or more (e.g. 1e6)");
         boolean air = AxisMedium.isAir(medium);
         Ions.Atoms atoms = ions.resolveAtoms(data.context());
-        if (transition != null || ladder != null) {
+        OptionRules rules = new OptionRules(spec);
+        boolean single = transition != null || ladder != null;
+        String singleOption = transition != null ? "--transition" : "--ladder";
+        for (String option : new String[] {"--from", "--to", "--n-max", "--l-max", "--min-a", "--multiplets",
+            "--medium"}) {
+            rules.refuseUnless(option, !single, "with " + singleOption + " (it shapes the table of lines in a window;"
+                    + " " + singleOption + " prints its states' lines in vacuum and air)");
+        }
+        rules.refuseUnless("--temperature", transition != null, "without --transition (it sets the black-body"
+                + " temperature of the effective lifetimes --transition prints)");
+        rules.refuseUnless("--l-max", !atoms.alkalis().isEmpty(), "for one-electron ions (--species names no alkali"
+                + " atom; every l of a one-electron ion is listed)");
+        rules.refuseUnless("--multiplets", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron"
+                + " ion; alkali lines are listed by fine-structure level)");
+        rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion)");
+        if (single) {
             return single(atoms);
         }
         if (from == null || to == null) {
@@ -255,12 +268,12 @@ final class LinesCommand implements Callable<Integer> {
             throw new IllegalArgumentException((transition != null ? "--transition" : "--ladder")
                     + " needs exactly one alkali atom in --species, e.g. \"Rb-87 I\"");
         }
-        if (!(temperature > 0 && temperature < 1e5)) {
-            throw new IllegalArgumentException("--temperature must be between 0 and 1e5 K, got " + temperature);
-        }
+        OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e5),
+                "a temperature above 0 and below 1e5 K");
         AlkaliAtom atom = atoms.alkalis().get(0);
         if (transition != null) {
             State[] pair = AlkaliTables.pair(transition);
+            AlkaliTables.checkRange("--transition", atom, pair);
             // Both states' lifetimes sum over many states at high n: show a sign of life.
             try (Progress.Running running = Progress.ticking(spec.commandLine().getErr(), "lines: "
                     + atom.species().notation() + " " + transition + ": rates and lifetimes")) {
@@ -268,7 +281,9 @@ final class LinesCommand implements Callable<Integer> {
                         running);
             }
         } else {
-            AlkaliTables.ladder(atom, AlkaliTables.ladder(ladder), spec.commandLine().getOut(), format);
+            State[] states = AlkaliTables.ladder(ladder);
+            AlkaliTables.checkRange("--ladder", atom, states);
+            AlkaliTables.ladder(atom, states, spec.commandLine().getOut(), format);
         }
         return 0;
     }

@@ -175,13 +175,8 @@ final class SynthCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
+        checkOptions();
         checkOutputs();
-        if (pixels < 2 || pixels > 50_000_000) {
-            throw new IllegalArgumentException("--pixels must be 2 to 50000000, got " + pixels);
-        }
-        if (!(resolvingPower > 0) || Double.isInfinite(resolvingPower)) {
-            throw new IllegalArgumentException("--resolving-power must be a finite positive number, got " + resolvingPower);
-        }
         if (!format.equals("csv") && !format.equals("json")) {
             throw new IllegalArgumentException("--format must be csv or json, got '" + format + "'");
         }
@@ -191,6 +186,12 @@ final class SynthCommand implements Callable<Integer> {
         }
         Medium axisMedium = AxisMedium.of(medium);
         PixelGrid grid = grid(axisMedium);
+        double span = Math.abs(grid.edge(grid.pixels()) - grid.edge(0));
+        if (collisionalWidth > 1000 * span) {
+            throw new IllegalArgumentException("--collisional-width must be a Lorentzian FWHM from 0 to 1000 times the"
+                    + " spectrum's span (" + OptionRules.show(1000 * span) + " nm here), got "
+                    + OptionRules.show(collisionalWidth) + " nm");
+        }
         Scene.Builder builder = Scene.builder(grid)
                 .medium(axisMedium)
                 .instrument(Instrument.ofResolvingPower(resolvingPower))
@@ -207,6 +208,14 @@ final class SynthCommand implements Callable<Integer> {
         Ions.Atoms atoms = ions.species.isEmpty() ? new Ions.Atoms(List.of(), List.of())
                 : Ions.atoms(data.context(), ions.species, ions.model);
         List<Ions.Ion> resolved = atoms.ions();
+        OptionRules rules = new OptionRules(spec);
+        String noIon = "without a one-electron ion in --species (";
+        rules.refuseUnless("--model", !resolved.isEmpty(), noIon + "it is their level model; alkali atoms and --lines"
+                + " lists bring their own levels)");
+        rules.refuseUnless("--natural-widths", !resolved.isEmpty(), noIon + "natural widths are computed for their"
+                + " lines)");
+        rules.refuseUnless("--n-max", !ions.species.isEmpty(), "without --species (--lines lists bring their own"
+                + " lines)");
         if (resolved.isEmpty() && atoms.alkalis().isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
                     + " or both");
@@ -252,14 +261,25 @@ final class SynthCommand implements Callable<Integer> {
                     "synth: rendering " + scene.lines().size() + " lines onto " + grid.pixels() + " pixels"));
         } catch (SceneException e) {
             if (e.code().equals(SceneException.NO_LIGHT)) {
-                throw new IllegalArgumentException("no line of " + emitters() + " falls between "
-                        + (dispersion == null ? from + " and " + to : fmt(spectrumEdge(0)) + " nm and "
-                        + fmt(spectrumEdge(1)) + " nm") + " (n <= " + nMax + "); widen the range or raise --n-max", e);
+                int[] dark = darkLines(scene.lines(), grid);
+                String range = dispersion == null ? from + " and " + to : fmt(spectrumEdge(0)) + " nm and "
+                        + fmt(spectrumEdge(1)) + " nm";
+                if (dark[0] > 0) {
+                    throw new IllegalArgumentException(dark[0] + " line(s) of " + emitters() + " fall between " + range
+                            + ", but none carries any light: " + darkReason(), e);
+                }
+                throw new IllegalArgumentException("no line of " + emitters() + " falls between " + range
+                        + " (n <= " + nMax + "); widen the range or raise --n-max", e);
             }
             throw e;
         }
         for (String note : scene.notes()) {
             spec.commandLine().getErr().println("note: " + note);
+        }
+        int[] dark = darkLines(scene.lines(), grid);
+        if (dark[1] > 0) {
+            spec.commandLine().getErr().println("note: " + dark[1] + " of the " + dark[0] + " lines inside the range carry"
+                    + " no light: " + darkReason());
         }
         spec.commandLine().getErr().flush();
         Medium axis = AxisMedium.of(medium);
@@ -286,6 +306,51 @@ final class SynthCommand implements Callable<Integer> {
             batch.commit();
         }
         return 0;
+    }
+
+    /** Counts are kept exact as whole numbers in a double up to 2^53 (about 9e15): the cap of every count option. */
+    private static final double MAX_COUNTS = 1e15;
+
+    /**
+     * Refuses, before any work, numbers outside their range (said in the option's unit) and
+     * options that would have no effect in this combination.
+     */
+    private void checkOptions() {
+        OptionRules rules = new OptionRules(spec);
+        if (pixels < 2 || pixels > 50_000_000) {
+            throw new IllegalArgumentException("--pixels must be 2 to 50000000, got " + pixels);
+        }
+        OptionRules.range("--resolving-power", resolvingPower, 1, true, 1e9,
+                "a resolving power lambda / FWHM from 1 to 1e9 (e.g. 5000)");
+        OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e9), "a temperature above 0 and below 1e9 K");
+        double maxSpeed = org.ritzwerk.constants.PhysicalConstants.C / 1e4;
+        if (!(Math.abs(velocity) < maxSpeed)) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "--velocity must be a line-of-sight speed in"
+                    + " km/s below a tenth of the speed of light in size (-%.0f to %.0f km/s), got %s km/s",
+                    maxSpeed, maxSpeed, OptionRules.show(velocity)));
+        }
+        OptionRules.range("--collisional-width", collisionalWidth, 0, true, Double.MAX_VALUE,
+                "a Lorentzian FWHM of 0 nm or more");
+        OptionRules.range("--peak-counts", peakCounts, 0, false, MAX_COUNTS,
+                "a number of counts above 0 and at most 1e15");
+        OptionRules.range("--read-noise", readNoise, 0, true, MAX_COUNTS,
+                "a standard deviation from 0 to 1e15 counts");
+        boolean continuum = continuumFile != null || !continuumKind.equals("none");
+        rules.refuseUnless("--continuum-counts", continuum, "without --continuum or --continuum-file");
+        rules.refuseUnless("--continuum-temperature", continuumKind.equals("blackbody"),
+                "without --continuum blackbody");
+        OptionRules.range("--continuum-counts", continuumCounts, 0, false, MAX_COUNTS,
+                "a number of counts above 0 and at most 1e15");
+        if (continuumTemperature != null) {
+            OptionRules.range("--continuum-temperature", continuumTemperature, 0, false, Math.nextDown(1e9),
+                    "a temperature above 0 and below 1e9 K");
+        }
+        rules.refuseUnless("--read-noise", !noNoise, "with --no-noise");
+        rules.refuseUnless("--seed", !noNoise, "with --no-noise");
+        if (electronDensity != null) {
+            OptionRules.range("--electron-density", electronDensity, 0, false, 1e25,
+                    "a density above 0 and at most 1e25 per cubic metre (the Stark fits' range)");
+        }
     }
 
     private PixelGrid grid(Medium axisMedium) {
@@ -329,6 +394,34 @@ final class SynthCommand implements Callable<Integer> {
         };
     }
 
+    /**
+     * @return {lines inside the grid, of those the ones with a photon rate of exactly 0}
+     */
+    private static int[] darkLines(Scene.Lines lines, PixelGrid grid) {
+        double lo = Math.min(grid.edge(0), grid.edge(grid.pixels()));
+        double hi = Math.max(grid.edge(0), grid.edge(grid.pixels()));
+        int inside = 0;
+        int dark = 0;
+        for (int i = 0; i < lines.size(); i++) {
+            if (lines.position(i) >= lo && lines.position(i) <= hi) {
+                inside++;
+                if (lines.photons(i) == 0) {
+                    dark++;
+                }
+            }
+        }
+        return new int[] {inside, dark};
+    }
+
+    /** Why a line inside the range can carry no light, in the options' words. */
+    private String darkReason() {
+        String populations = "at --temperature " + OptionRules.show(temperature) + " K the Boltzmann populations of"
+                + " their upper levels, exp(-E / kT), are below the smallest number a double holds (about 1e-308)"
+                + (electronDensity == null ? "" : ", or the ionisation balance at --electron-density leaves no emitters")
+                + "; raise --temperature";
+        return lineSets.isEmpty() ? populations : populations + ", or give --lines entries an intensity above 0";
+    }
+
     /** Runs a builder step, naming the option when the engine refuses its value. */
     private static void option(String name, Runnable step) {
         try {
@@ -356,9 +449,8 @@ final class SynthCommand implements Callable<Integer> {
                     throw new IllegalArgumentException("--abundance: '" + item.substring(eq + 1).strip()
                             + "' is not a number in '" + item + "'");
                 }
-                if (!(value > 0) || Double.isInfinite(value)) {
-                    throw new IllegalArgumentException("--abundance of " + symbol + " must be positive, got " + value);
-                }
+                OptionRules.range("--abundance of " + symbol, value, 0, false, Double.MAX_VALUE,
+                        "a positive finite number (relative to 1 for each other element)");
                 if (result.put(z, value) != null) {
                     throw new IllegalArgumentException("--abundance gives " + symbol + " twice");
                 }
@@ -383,9 +475,6 @@ final class SynthCommand implements Callable<Integer> {
                     break;
                 case "blackbody":
                     double t = continuumTemperature == null ? temperature : continuumTemperature;
-                    if (!(t > 0) || Double.isInfinite(t)) {
-                        throw new IllegalArgumentException("--continuum-temperature must be positive, got " + t);
-                    }
                     Medium axisMedium = AxisMedium.of(medium);
                     density = nm -> Continuum.planckPerWavelength(axisMedium.toVacuum(nm * 1e-9), t);
                     break;

@@ -116,7 +116,8 @@ class IdentifyCommandTest {
         assertTrue(none.err().contains("give candidate lines"), none.err());
         CliTest.Run zero = CliTest.run("identify", noSigma.toString(), "--species", "H", "--tolerance", "0 nm");
         assertEquals(2, zero.code());
-        assertTrue(zero.err().contains("tolerance must be finite and positive"), zero.err());
+        assertTrue(zero.err().contains("--tolerance must be a positive finite number") && zero.err().contains("got '0 nm'"),
+                zero.err());
     }
 
     @Test

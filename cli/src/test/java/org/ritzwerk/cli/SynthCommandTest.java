@@ -121,7 +121,7 @@ class SynthCommandTest {
                 .err().contains("--medium must be vacuum or air, got 'water'"));
         CliTest.Run cold = CliTest.run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
                 "--temperature", "-3");
-        assertTrue(cold.err().contains("--temperature: temperature must be positive and below 1e9 K, got -3.0"), cold.err());
+        assertTrue(cold.err().contains("--temperature must be a temperature above 0 and below 1e9 K, got -3"), cold.err());
     }
 
     @Test
@@ -141,7 +141,7 @@ class SynthCommandTest {
         assertEquals(restNm * Math.sqrt((1 + beta) / (1 - beta)), movingNm, 1e-9 * restNm);
         assertTrue(run.out().contains("# velocity-km-s: -1500.0\n# collisional-fwhm-nm: 0.05\n"), run.out());
         assertTrue(CliTest.run(concat(common, "--velocity", "40000")).err()
-                .contains("--velocity: velocity must be below a tenth of the speed of light"));
+                .contains("--velocity must be a line-of-sight speed in km/s below a tenth of the speed of light"));
     }
 
     @Test
@@ -206,7 +206,7 @@ class SynthCommandTest {
         assertTrue(CliTest.run(concat(common, "--abundance", "He=0.1")).err()
                 .contains("--abundance names He, which is not among --species"));
         assertTrue(CliTest.run(concat(common, "--electron-density", "1e30")).err()
-                .contains("--electron-density: electron density must be positive and at most"));
+                .contains("--electron-density must be a density above 0 and at most 1e25 per cubic metre"));
         assertTrue(CliTest.run(concat(common, "--natural-widths", "--n-max", "100")).err()
                 .contains("lower --n-max (100)"));
         assertTrue(CliTest.run(concat(common, "--format", "xml")).err().contains("--format must be csv or json"));

@@ -166,9 +166,11 @@ public final class CalibrationFiles {
         } catch (MediumException e) {
             throw invalid(source, "\"medium\": " + e.getMessage());
         }
-        int pixels = root.path("pixels").asInt(-1);
+        JsonNode pixelCount = root.path("pixels");
+        int pixels = pixelCount.isIntegralNumber() && pixelCount.canConvertToInt() ? pixelCount.asInt() : -1;
         if (pixels < 2) {
-            throw invalid(source, "\"pixels\" must be a whole number of at least 2, got " + root.get("pixels"));
+            throw invalid(source, "\"pixels\" must be a whole number of at least 2, got "
+                    + TabularFiles.shown(root.get("pixels")));
         }
         double[] valid = numbers(source, root, "valid_pixels");
         if (valid.length != 2) {
@@ -194,12 +196,61 @@ public final class CalibrationFiles {
             }
         }
         String description = root.path("description").asString("");
+        DispersionSolution solution;
         try {
-            return new Calibration(DispersionSolution.of(centre, halfRange, coefficients, covariance, valid[0], valid[1],
-                    medium), pixels, description);
+            solution = DispersionSolution.of(centre, halfRange, coefficients, covariance, valid[0], valid[1], medium);
         } catch (IllegalArgumentException e) {
             throw invalid(source, e.getMessage());
         }
+        checkAcrossTheDetector(source, solution, pixels, covariance != null);
+        return new Calibration(solution, pixels, description);
+    }
+
+    /** Largest wavelength a solution may give, nm: one metre, far beyond any pixel detector's range. */
+    static final double MAX_WAVELENGTH_NM = 1e9;
+
+    /**
+     * A solution read from a file must give every pixel of the detector a finite, positive
+     * wavelength below {@link #MAX_WAVELENGTH_NM} with a finite uncertainty (when the file gives a
+     * covariance; without one there is no uncertainty), rising or falling
+     * throughout (a dispersion solution is monotonic); checked at every pixel up to a million
+     * pixels, and at a million evenly spaced ones beyond.
+     */
+    private static void checkAcrossTheDetector(String source, DispersionSolution solution, int pixels,
+            boolean withCovariance) {
+        int samples = Math.min(pixels, 1_000_000);
+        double step = (pixels - 1) / (double) (samples - 1);
+        double previous = Double.NaN;
+        int direction = 0;
+        for (int k = 0; k < samples; k++) {
+            double p = k == samples - 1 ? pixels - 1 : k * step;
+            double nm = solution.wavelengthAt(p);
+            if (!(nm > 0 && nm < MAX_WAVELENGTH_NM)) {
+                throw invalid(source, String.format(java.util.Locale.ROOT, "the solution gives pixel %s %s; every pixel"
+                        + " must get a wavelength above 0 and below 1e9 nm (check \"coefficients_nm\", \"centre_pixel\""
+                        + " and \"half_range\")", pixel(p), Double.isFinite(nm) ? "the wavelength "
+                        + String.format(java.util.Locale.ROOT, "%.6g nm", nm) : "no finite wavelength"));
+            }
+            double sigma = solution.wavelengthSigmaAt(p);
+            if (withCovariance && !(sigma >= 0 && sigma < MAX_WAVELENGTH_NM)) {
+                throw invalid(source, "the solution's uncertainty at pixel " + pixel(p) + " is not a finite number of"
+                        + " nm below 1e9; check \"covariance_nm2\"");
+            }
+            if (k > 0) {
+                int sign = (int) Math.signum(nm - previous);
+                if (sign == 0 || (direction != 0 && sign != direction)) {
+                    throw invalid(source, "the solution is not monotonic: the wavelength " + (sign == 0 ? "stands still"
+                            : "turns back") + " near pixel " + pixel(p) + "; a dispersion solution must rise or fall"
+                            + " across the whole detector");
+                }
+                direction = sign;
+            }
+            previous = nm;
+        }
+    }
+
+    private static String pixel(double p) {
+        return p == Math.rint(p) ? String.valueOf((long) p) : String.format(java.util.Locale.ROOT, "%.1f", p);
     }
 
     private static void putNumber(ObjectNode node, String key, double value) {
@@ -212,8 +263,8 @@ public final class CalibrationFiles {
 
     private static double number(String source, JsonNode root, String name) {
         JsonNode v = root.get(name);
-        if (v == null || !v.isNumber()) {
-            throw invalid(source, "\"" + name + "\" must be a number, got " + v);
+        if (v == null || !v.isNumber() || !Double.isFinite(v.asDouble())) {
+            throw invalid(source, "\"" + name + "\" must be a finite number, got " + TabularFiles.shown(v));
         }
         return v.asDouble();
     }
@@ -225,8 +276,8 @@ public final class CalibrationFiles {
         }
         double[] values = new double[array.size()];
         for (int i = 0; i < values.length; i++) {
-            if (!array.get(i).isNumber()) {
-                throw invalid(source, "\"" + name + "\"[" + i + "] must be a number, got " + array.get(i));
+            if (!array.get(i).isNumber() || !Double.isFinite(array.get(i).asDouble())) {
+                throw invalid(source, "\"" + name + "\"[" + i + "] must be a finite number, got " + TabularFiles.shown(array.get(i)));
             }
             values[i] = array.get(i).asDouble();
         }

@@ -270,8 +270,10 @@ public final class QuantumDefectFiles {
             double dipole = number(header, headerLine, "core-dipole-polarizability-au", source, problems);
             double quadrupole = number(header, headerLine, "core-quadrupole-polarizability-au", source, problems);
             String coreSource = header.getOrDefault("core-source", "");
+            // A number already reported as unreadable is not reported again as out of range.
             try {
-                core = new CorePolarizability(dipole, quadrupole, coreSource);
+                core = Double.isNaN(dipole) || Double.isNaN(quadrupole) ? null
+                        : new CorePolarizability(dipole, quadrupole, coreSource);
             } catch (IllegalArgumentException e) {
                 problems.add(new DataProblem(source, headerLine.getOrDefault("core-dipole-polarizability-au", 1), 0,
                         "qd.bad-core", e.getMessage(), ""));
@@ -342,8 +344,9 @@ public final class QuantumDefectFiles {
         } catch (NumberFormatException e) {
             // reported below
         }
-        problems.add(new DataProblem(source, lines.getOrDefault(key, 1), 0, "qd.bad-number", key
-                + " is not a finite number: '" + text + "'", text == null ? "" : text));
+        problems.add(new DataProblem(source, lines.getOrDefault(key, 1), 0, "qd.bad-number", text == null
+                ? "header '" + key + "' is missing" : key + " is not a finite number: '" + text + "'",
+                text == null ? "" : text));
         return Double.NaN;
     }
 

@@ -375,7 +375,7 @@ public final class SpectrumFiles {
             JsonNode v = node.get(i);
             if (!v.isNumber() || !Double.isFinite(v.asDouble())) {
                 throw new DataFileException(DataFileException.INVALID, source, List.of(),
-                        name + "[" + i + "] must be a finite number, got " + v);
+                        name + "[" + i + "] must be a finite number, got " + TabularFiles.shown(v));
             }
             values[i] = v.asDouble();
         }

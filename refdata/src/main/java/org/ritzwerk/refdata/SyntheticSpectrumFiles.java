@@ -400,7 +400,7 @@ public final class SyntheticSpectrumFiles {
     private static double number(String source, JsonNode node, String where, String name) {
         JsonNode v = node.path(name);
         if (!v.isNumber() || !Double.isFinite(v.asDouble())) {
-            throw fail(source, where + "." + name + " must be a finite number, got " + v);
+            throw fail(source, where + "." + name + " must be a finite number, got " + TabularFiles.shown(v));
         }
         return v.asDouble();
     }
@@ -413,7 +413,7 @@ public final class SyntheticSpectrumFiles {
         for (int i = 0; i < values.length; i++) {
             JsonNode v = node.get(i);
             if (!v.isNumber() || !Double.isFinite(v.asDouble())) {
-                throw fail(source, name + "[" + i + "] must be a finite number, got " + v);
+                throw fail(source, name + "[" + i + "] must be a finite number, got " + TabularFiles.shown(v));
             }
             values[i] = v.asDouble();
         }

@@ -49,6 +49,18 @@ import tools.jackson.dataformat.csv.CsvSchema;
  */
 final class TabularFiles {
 
+    /**
+     * A JSON value for a message: a number too large for a double (which the parser turns into an
+     * infinity) is said so in words, never printed as "Infinity".
+     *
+     * @param value a JSON value, or null when missing
+     * @return its text
+     */
+    static String shown(tools.jackson.databind.JsonNode value) {
+        return value != null && value.isNumber() && !Double.isFinite(value.asDouble())
+                ? "a number too large for a double" : String.valueOf(value);
+    }
+
     /** The largest file read, in bytes (64 MiB). */
     static final long MAX_BYTES = 64L << 20;
     /** The most rows read. */
@@ -324,7 +336,8 @@ final class TabularFiles {
                 number = Double.parseDouble(text);
             }
             if (!Double.isFinite(number)) {
-                rowProblem(row, column, "data.not-finite", column + " is too large for a double: '" + value + "'");
+                rowProblem(row, column, "data.not-finite", column + " is too large for a double"
+                        + (value instanceof String ? ": '" + ((String) value).strip() + "'" : ""));
                 return Double.NaN;
             }
             if (number < 0) {
@@ -684,7 +697,7 @@ final class TabularFiles {
                     format = value.isString() ? value.asString() : value.toString();
                     formatLine = line;
                 } else if (name.equals("formatVersion")) {
-                    version = value.isIntegralNumber() ? (Object) value.asInt() : value.toString();
+                    version = value.isIntegralNumber() ? (Object) value.asInt() : shown(value);
                 } else {
                     String key = headerKeyOf(spec, name);
                     if (key == null) {
