@@ -12,10 +12,10 @@ How the spectrum is made (nothing here is computed by Ritzwerk):
     sympy.physics.hydrogen.R_nl (symbolic integration), A(nl -> n'l') =
     (4/3) alpha^3 omega^3 max(l, l') / (2l + 1) |<n'l'|r|nl>|^2 in atomic units (infinite
     mass), times mu / m_e for the reduced mass; the multiplet's g A sums 2(2l+1) A over l, l';
-    checked here against Lyman-alpha 6.2649e8 s^-1 and the Balmer multiplet A values
-    4.4101e7, 8.4193e6, 2.5304e6, 9.7320e5 s^-1 of W. L. Wiese and J. R. Fuhr, J. Phys. Chem.
-    Ref. Data 38, 565 (2009) (recalled, from memory; the exact computation here agrees with them
-    to 1e-3 or the script stops);
+    checked here against the Lyman-alpha A 6.2649e8 s^-1 and the Balmer multiplet A values
+    4.4101e7, 8.4193e6, 2.5304e6, 9.7320e5 s^-1 as tabulated by W. L. Wiese and J. R. Fuhr,
+    J. Phys. Chem. Ref. Data 38, 565 (2009) (all five recalled, from memory, not looked up; the
+    exact computation here agrees with each to 1e-3 or the script stops, which is the check);
   * photon fluxes F = C g A exp(-(E_n - E_1) / kT) at T = 9000 K (invented), D lines at 0.5 of
     the H flux (invented); Lorentzian widths invented; Gaussian FWHM
     sqrt(0.10^2 + w_D^2) nm with the Doppler FWHM w_D = lambda sqrt(8 k T_D ln 2 / (m c^2)) at
