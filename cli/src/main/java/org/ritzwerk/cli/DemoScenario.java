@@ -11,6 +11,7 @@ import java.util.Optional;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.calibrate.CalibratedPeaks;
 import org.ritzwerk.engine.calibrate.Calibration;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
 import org.ritzwerk.engine.calibrate.Calibrator;
@@ -244,19 +245,14 @@ final class DemoScenario {
 
         // Peaks to wavelengths through the calibration.
         Peaks peaks = PeakFinder.defaults().withThreshold(8).find(counts);
-        int n = peaks.size();
-        double[] nm = new double[n];
-        double[] nmSigma = new double[n];
-        double[] flux = new double[n];
-        for (int k = 0; k < n; k++) {
-            double c = peaks.centre(k);
-            nm[k] = solution.wavelengthAt(c);
-            nmSigma[k] = Math.hypot(solution.dispersionAt(c) * peaks.centreSigma(k), solution.wavelengthSigmaAt(c));
-            flux[k] = Math.max(peaks.flux(k), 1e-9);
-        }
-        PeakList peakList = PeakList.of(nm, nmSigma, flux, Unit.NANOMETRE, Medium.air());
+        CalibratedPeaks calibrated = CalibratedPeaks.of(peaks, solution);
+        int n = calibrated.size();
+        double[] nm = calibrated.wavelengthsNm();
+        double[] nmSigma = calibrated.wavelengthSigmasNm();
+        double[] flux = calibrated.fluxes(1e-9);
+        PeakList peakList = calibrated.toPeakList(1e-9);
         Path peaksFile = folder.resolve("discharge-peaks.csv");
-        writePeaks(peaksFile, peaks, solution, nm, nmSigma);
+        writePeaks(peaksFile, calibrated);
         results.files.add(peaksFile);
 
         // First pass: every line of H I, D I and He II on its own, with a velocity search.
@@ -274,13 +270,13 @@ final class DemoScenario {
                 n, velocity.velocity() / 1e3, velocity.velocityUncertainty() / 1e3, DISCHARGE_VELOCITY / 1e3);
         IsotopePairs pairs = IsotopePairs.of(hydrogen.species(), deuterium.species());
         Optional<IsotopePairs.Resolved> alpha = pairs.resolved(first.identification(), first.lines(), "Balmer alpha",
-                nm, flux, fluxSigmas(peaks), Medium.air());
+                nm, flux, calibrated.fluxSigmas(), Medium.air());
         double ratio = 0;
         if (alpha.isPresent()) {
             // Balmer-alpha resolves H from D: the pair gives the D/H ratio and the isotope shift.
             IsotopePairs.Resolved pair = alpha.get();
             ratio = pair.heavyPerLight();
-            double resolution = peaks.fwhm(pair.lightPeak()) * Math.abs(solution.dispersionAt(peaks.centre(pair.lightPeak())));
+            double resolution = calibrated.fwhmsNm()[pair.lightPeak()];
             results.isotopeShiftPredicted = pair.predictedShift();
             results.isotopeShiftMeasured = pair.measuredShift();
             results.deuteriumRatio = ratio;
@@ -342,14 +338,6 @@ final class DemoScenario {
             Plots.Label old = labels.get(near);
             labels.set(near, new Plots.Label(Math.max(old.x(), at), old.text() + " / " + text));
         }
-    }
-
-    private static double[] fluxSigmas(Peaks peaks) {
-        double[] sigmas = new double[peaks.size()];
-        for (int k = 0; k < sigmas.length; k++) {
-            sigmas[k] = peaks.fluxSigma(k);
-        }
-        return sigmas;
     }
 
     /**
@@ -418,17 +406,10 @@ final class DemoScenario {
     }
 
     /** The discharge's peaks in the ritzwerk-peaks format, for {@code ritzwerk identify}. */
-    private static void writePeaks(Path file, Peaks peaks, DispersionSolution solution, double[] nm, double[] nmSigma)
-            throws IOException {
-        int n = nm.length;
-        double[] intensities = new double[n];
-        double[] widths = new double[n];
-        for (int k = 0; k < n; k++) {
-            intensities[k] = Math.max(peaks.flux(k), 1e-9);
-            widths[k] = peaks.fwhm(k) * Math.abs(solution.dispersionAt(peaks.centre(k)));
-        }
-        PeakFiles.Peaks list = new PeakFiles.Peaks("wrenfield-discharge", Unit.NANOMETRE, Medium.air(), nm, nmSigma,
-                intensities, widths, new int[n]);
+    private static void writePeaks(Path file, CalibratedPeaks peaks) throws IOException {
+        PeakFiles.Peaks list = new PeakFiles.Peaks("wrenfield-discharge", Unit.NANOMETRE, peaks.medium(),
+                peaks.wavelengthsNm(), peaks.wavelengthSigmasNm(), peaks.fluxes(1e-9), peaks.fwhmsNm(),
+                new int[peaks.size()]);
         OutputFiles.writeString(file, PeakFiles.writeCsv(list, "peaks of the H-D-He discharge (demo)",
                 "ritzwerk demo, invented scenario, calibrated with calibration.json", "computed", "1"));
     }
