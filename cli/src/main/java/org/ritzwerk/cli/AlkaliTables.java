@@ -88,11 +88,9 @@ final class AlkaliTables {
             throw new IllegalArgumentException("--transition: " + a.notation() + " and " + b.notation()
                     + " are not joined by an electric-dipole line (needs Delta l = 1, Delta j <= 1)");
         }
-        boolean aUpper = atom.energyPerCm(a) > atom.energyPerCm(b);
-        State upper = aUpper ? a : b;
-        State lower = aUpper ? b : a;
-        AlkaliLines.Line line = AlkaliLines.line(atom, upper,
-                lower);
+        AlkaliLines.Line line = AlkaliLines.between(atom, a, b);
+        State upper = line.upper();
+        State lower = line.lower();
         double vacuum = PhysicalConstants.C / line.frequency();
         boolean lowerIsGround = lower.equals(atom.groundState());
         Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequency(), vacuum * 1e9,

@@ -7,10 +7,11 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
-import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.calibrate.CalibratedPeaks;
 import org.ritzwerk.engine.calibrate.Calibration;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
 import org.ritzwerk.engine.calibrate.Calibrator;
@@ -18,19 +19,15 @@ import org.ritzwerk.engine.calibrate.DispersionSolution;
 import org.ritzwerk.engine.calibrate.LampSet;
 import org.ritzwerk.engine.calibrate.PeakFinder;
 import org.ritzwerk.engine.calibrate.Peaks;
-import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
-import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
-import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.IdentificationSearch;
 import org.ritzwerk.engine.identify.Identifier;
-import org.ritzwerk.engine.identify.LineCatalog;
 import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.engine.identify.ShiftSearch;
 import org.ritzwerk.engine.identify.Tolerance;
-import org.ritzwerk.engine.plasma.BoltzmannPlot;
-import org.ritzwerk.engine.plasma.VoigtLineFit;
-import org.ritzwerk.engine.profile.BalmerStark;
-import org.ritzwerk.engine.profile.Broadening;
+import org.ritzwerk.engine.plasma.BalmerPlasmaFit;
+import org.ritzwerk.engine.plasma.IsotopePairs;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
 import org.ritzwerk.engine.synth.Instrument;
@@ -248,293 +245,130 @@ final class DemoScenario {
 
         // Peaks to wavelengths through the calibration.
         Peaks peaks = PeakFinder.defaults().withThreshold(8).find(counts);
-        int n = peaks.size();
-        double[] nm = new double[n];
-        double[] nmSigma = new double[n];
-        double[] flux = new double[n];
-        for (int k = 0; k < n; k++) {
-            double c = peaks.centre(k);
-            nm[k] = solution.wavelengthAt(c);
-            nmSigma[k] = Math.hypot(solution.dispersionAt(c) * peaks.centreSigma(k), solution.wavelengthSigmaAt(c));
-            flux[k] = Math.max(peaks.flux(k), 1e-9);
-        }
-        PeakList peakList = PeakList.of(nm, nmSigma, flux, Unit.NANOMETRE, Medium.air());
+        CalibratedPeaks calibrated = CalibratedPeaks.of(peaks, solution);
+        int n = calibrated.size();
+        double[] nm = calibrated.wavelengthsNm();
+        double[] nmSigma = calibrated.wavelengthSigmasNm();
+        double[] flux = calibrated.fluxes(1e-9);
+        PeakList peakList = calibrated.toPeakList(1e-9);
         Path peaksFile = folder.resolve("discharge-peaks.csv");
-        writePeaks(peaksFile, peaks, solution, nm, nmSigma);
+        writePeaks(peaksFile, calibrated);
         results.files.add(peaksFile);
+
         // First pass: every line of H I, D I and He II on its own, with a velocity search.
-        LineCatalog catalog = catalog(ions, 0, 0, java.util.Set.of());
+        Candidates candidates = Candidates.inWindow(395e-9, 680e-9)
+                .hydrogenLike(hydrogen.species(), hydrogen.model(), 12, false)
+                .hydrogenLike(deuterium.species(), deuterium.model(), 12, false)
+                .hydrogenLike(helium.species(), helium.model(), 12, false).build();
         Identifier identifier = Identifier.of(Tolerance.absolute(0.03e-9));
-        ShiftSearch.Fit velocity = ShiftSearch.redshift(identifier, peakList, catalog, 100e3);
-        Identification id = identifier.identify(peakList, catalog.shifted(velocity.value()));
+        IdentificationSearch.Report first = IdentificationSearch.of(identifier).withVelocitySearch(100e3)
+                .run(peakList, candidates.catalog());
+        ShiftSearch.Fit velocity = first.velocity().orElseThrow();
         results.velocity = velocity.velocity();
         results.velocityUncertainty = velocity.velocityUncertainty();
         out.printf(Locale.ROOT, "   %d peaks above S/N 8; line-of-sight velocity %.2f +- %.2f km/s (invented truth %.1f)%n",
                 n, velocity.velocity() / 1e3, velocity.velocityUncertainty() / 1e3, DISCHARGE_VELOCITY / 1e3);
-        int hAlpha = find(id, catalog, "H I Balmer alpha");
-        int dAlpha = find(id, catalog, "D I Balmer alpha");
+        IsotopePairs pairs = IsotopePairs.of(hydrogen.species(), deuterium.species());
+        Optional<IsotopePairs.Resolved> alpha = pairs.resolved(first.identification(), first.lines(), "Balmer alpha",
+                nm, flux, calibrated.fluxSigmas(), Medium.air());
         double ratio = 0;
-        double resolution = 0;
-        if (hAlpha >= 0 && dAlpha >= 0) {
+        if (alpha.isPresent()) {
             // Balmer-alpha resolves H from D: the pair gives the D/H ratio and the isotope shift.
-            ratio = peaks.flux(dAlpha) / peaks.flux(hAlpha);
-            resolution = peaks.fwhm(hAlpha) * Math.abs(solution.dispersionAt(peaks.centre(hAlpha)));
-            double predictedH = Medium.air().fromVacuum(PhysicalConstants.C / alphaFrequency(hydrogen.model())) * 1e9;
-            double predictedD = Medium.air().fromVacuum(PhysicalConstants.C / alphaFrequency(deuterium.model())) * 1e9;
-            results.isotopeShiftPredicted = predictedH - predictedD;
-            results.isotopeShiftMeasured = nm[hAlpha] - nm[dAlpha];
+            IsotopePairs.Resolved pair = alpha.get();
+            ratio = pair.heavyPerLight();
+            double resolution = calibrated.fwhmsNm()[pair.lightPeak()];
+            results.isotopeShiftPredicted = pair.predictedShift();
+            results.isotopeShiftMeasured = pair.measuredShift();
             results.deuteriumRatio = ratio;
             out.printf(Locale.ROOT, "   Balmer-alpha of H and D resolved: isotope shift measured %.4f nm, predicted %.4f nm;%n",
-                    results.isotopeShiftMeasured, results.isotopeShiftPredicted);
-            out.printf(Locale.ROOT, "   D/H from their fluxes %.2f (invented truth %.2f).%n", ratio, DEUTERIUM_RATIO);
-            // Second pass: the higher Balmer lines of H and D lie closer than the lines' width;
-            // each pair is one peak at the flux-weighted mean of the two.
-            catalog = catalog(ions, ratio, 1.5 * resolution, java.util.Set.of(3));
-            id = identifier.identify(peakList, catalog.shifted(velocity.value()));
+                    pair.measuredShift(), pair.predictedShift());
+            out.printf(Locale.ROOT, "   D/H from their fluxes %.2f +- %.2f (invented truth %.2f).%n", ratio,
+                    pair.heavyPerLightSigma(), DEUTERIUM_RATIO);
+            pairs = pairs.withRatio(ratio).withBlendWithin(1.5 * resolution * 1e-9).withResolved("Balmer alpha");
             out.println("   Higher Balmer lines of H and D are closer than the lines' width; they are identified as");
             out.println("   unresolved pairs at the flux-weighted mean position.");
         } else {
             out.println("   Balmer-alpha of H and D not resolved: no isotope shift.");
         }
+        // Second pass: unresolved H+D pairs as one line each, at the velocity found.
+        IsotopePairs.Merged merged = pairs.merge(candidates.catalog());
+        IdentificationSearch.Report second = IdentificationSearch.of(identifier)
+                .run(peakList, merged.lines().shifted(velocity.value()));
+        Identification id = second.identification();
         out.println();
         out.printf(Locale.ROOT, "   %12s %10s  %-32s %10s%n", "peak nm air", "+- nm", "identified as", "resid pm");
-        List<double[]> balmer = new ArrayList<>();
+        List<Plots.Label> labels = new ArrayList<>();
         for (int k = 0; k < n; k++) {
-            String what;
+            String what = "(unexplained)";
             String residual = "";
-            if (id.status(k) == Identification.UNEXPLAINED) {
-                what = "(unexplained)";
-            } else {
-                int j = id.line(k);
-                what = catalog.label(j) + (id.status(k) == Identification.AMBIGUOUS ? " ?" : "");
+            if (id.status(k) != Identification.UNEXPLAINED) {
+                String name = merged.name(second.lines(), id.line(k));
+                what = name + (id.status(k) == Identification.AMBIGUOUS ? " ?" : "");
                 residual = String.format(Locale.ROOT, "%10.2f", id.residual(k) * 1e12);
                 if (id.status(k) == Identification.MATCHED) {
-                    results.identified.add(catalog.label(j));
-                    if (catalog.label(j).startsWith("H I") && catalog.label(j).contains("Balmer")) {
-                        // {peak, upper n, D/H ratio to add when H alone was resolved}
-                        balmer.add(new double[] {k, upperN(catalog.label(j)),
-                            catalog.label(j).startsWith("H I+D I") ? 0 : ratio});
-                    }
+                    results.identified.add(name);
+                    label(labels, nm[k], name);
                 }
             }
             out.printf(Locale.ROOT, "   %12.4f %10.4f  %-32s %s%n", nm[k], nmSigma[k], what, residual);
         }
         out.println();
-        plasma(counts, solution, balmer, nm, ions, ratio, results);
+        plasma(counts, solution, velocity.value(), second, candidates, hydrogen, deuterium, ratio, results);
 
         Path plotFile = folder.resolve("discharge.png");
-        double[] x = new double[PIXELS];
-        for (int p = 0; p < PIXELS; p++) {
-            x[p] = solution.wavelengthAt(p);
-        }
-        List<Plots.Label> labels = new ArrayList<>();
-        for (int k = 0; k < n; k++) {
-            if (id.status(k) == Identification.MATCHED) {
-                double at = nm[k];
-                String text = catalog.label(id.line(k));
-                int near = -1;
-                for (int l = 0; l < labels.size(); l++) {
-                    near = Math.abs(labels.get(l).x() - at) < 2.5 ? l : near;
-                }
-                if (near < 0) {
-                    labels.add(new Plots.Label(at, text));
-                } else {
-                    Plots.Label old = labels.get(near);
-                    labels.set(near, new Plots.Label(Math.max(old.x(), at), old.text() + " / " + text));
-                }
-            }
-        }
         try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
             Plots.lineChart(batch, plotFile, "H-D-He discharge, Wrenfield Bench (invented): identified lines",
-                    "wavelength (nm, standard air, from the neon calibration)", "counts per pixel", x, counts, labels);
+                    "wavelength (nm, standard air, from the neon calibration)", "counts per pixel",
+                    solution.pixelCentreWavelengths(PIXELS), counts, labels);
             batch.commit();
         }
         results.files.add(plotFile);
         out.println();
     }
 
-    /**
-     * Temperature and density from the Balmer lines: each line fitted as a Voigt profile whose
-     * Gaussian part is the spectrometer's response and the Doppler width, with its unresolved D
-     * companion (known offset, D/H ratio from Balmer-alpha) riding along; the fluxes make a
-     * Boltzmann plot, the Lorentzian width of H-beta gives the electron density through the
-     * Stark fit of Gigosos et al. 2003.
-     */
-    private void plasma(double[] counts, DispersionSolution solution, List<double[]> balmer, double[] nm,
-            List<Ions.Ion> ions, double ratio, Results results) {
-        HydrogenLikeModel hydrogen = ions.get(0).model();
-        HydrogenLikeModel deuterium = ions.get(1).model();
-        double mass = hydrogen.nucleus().massKg() + PhysicalConstants.ELECTRON_MASS.value();
-        int m = balmer.size();
-        double[] intensity = new double[m];
-        double[] sigma = new double[m];
-        double[] energy = new double[m];
-        double[] weight = new double[m];
-        double[] a = new double[m];
-        double betaWidth = Double.NaN;
-        double betaWidthSigma = Double.NaN;
-        for (int i = 0; i < m; i++) {
-            int k = (int) balmer.get(i)[0];
-            int upper = (int) balmer.get(i)[1];
-            boolean pair = balmer.get(i)[2] == 0 && ratio > 0;
-            BalmerLine hLine = balmerLine(hydrogen, upper);
-            double offset = (PhysicalConstants.C / balmerLine(deuterium, upper).frequency()
-                    - PhysicalConstants.C / hLine.frequency()) * 1e9;
-            // The H line's centre: the peak itself, or for an unresolved pair the flux-weighted mean
-            // moved to the H line.
-            double centre = pair ? nm[k] - ratio * offset / (1 + ratio) : nm[k];
-            // The Doppler part at 10 000 K (it is small beside the response; common practice).
-            double hertz = hLine.frequency();
-            double doppler = Broadening.dopplerFwhm(hertz, 10_000, mass) / hertz * centre;
-            double gaussian = Math.hypot(RESPONSE_FWHM, doppler);
-            List<double[]> window = new ArrayList<>();
-            for (int p = 0; p < PIXELS; p++) {
-                double at = solution.wavelengthAt(p);
-                if (Math.abs(at - centre) < 1.2) {
-                    window.add(new double[] {at, counts[p], Math.sqrt(Math.max(counts[p], 1) + 36)});
-                }
-            }
-            double[] x = window.stream().mapToDouble(v -> v[0]).toArray();
-            double[] y = window.stream().mapToDouble(v -> v[1]).toArray();
-            double[] sy = window.stream().mapToDouble(v -> v[2]).toArray();
-            VoigtLineFit.Result fit = ratio > 0
-                    ? VoigtLineFit.fit(x, y, sy, gaussian, new double[] {offset}, new double[] {ratio}, centre)
-                    : VoigtLineFit.fit(x, y, sy, gaussian, new double[0], new double[0], centre);
-            intensity[i] = fit.flux();
-            sigma[i] = fit.fluxSigma();
-            weight[i] = hLine.upperWeight();
-            a[i] = hLine.einsteinA();
-            energy[i] = hydrogen.energy(upper, 0, 1) - hydrogen.energy(1, 0, 1);
-            if (upper == 4) {
-                betaWidth = fit.lorentzFwhm();
-                betaWidthSigma = fit.lorentzFwhmSigma();
-            }
+    /** Adds a plot label, joined to a label closer than 2.5 nm so that they do not overlap. */
+    private static void label(List<Plots.Label> labels, double at, String text) {
+        int near = -1;
+        for (int l = 0; l < labels.size(); l++) {
+            near = Math.abs(labels.get(l).x() - at) < 2.5 ? l : near;
         }
-        if (m >= 3) {
-            BoltzmannPlot.Fit fit = BoltzmannPlot.fit(BoltzmannPlot.Counting.PHOTONS, intensity, sigma, energy, weight,
-                    a, null);
-            results.temperature = fit.temperature();
-            results.temperatureUncertainty = fit.temperatureUncertainty();
-            out.printf(Locale.ROOT, "   Excitation temperature, Boltzmann plot of %d Balmer lines (Voigt-fitted fluxes): "
-                    + "%.0f +- %.0f K%n   (invented truth %.0f K)%n", m, fit.temperature(), fit.temperatureUncertainty(),
-                    DISCHARGE_TEMPERATURE);
+        if (near < 0) {
+            labels.add(new Plots.Label(at, text));
         } else {
-            out.println("   Too few Balmer lines for a Boltzmann plot.");
+            Plots.Label old = labels.get(near);
+            labels.set(near, new Plots.Label(Math.max(old.x(), at), old.text() + " / " + text));
         }
-        if (Double.isNaN(betaWidth)) {
-            out.println("   H-beta was not identified: no density estimate.");
-            return;
-        }
-        try {
-            results.density = BalmerStark.electronDensity(BalmerStark.Line.BETA, betaWidth);
-            double u = BalmerStark.electronDensityUncertainty(BalmerStark.Line.BETA, betaWidth, betaWidthSigma);
-            out.printf(Locale.ROOT, "   Electron density from the H-beta Stark width %.4f +- %.4f nm (Voigt fit with the"
-                    + " D line):%n   %.2e +- %.1e m^-3 (invented truth %.1e)%n", betaWidth, betaWidthSigma,
-                    results.density, u, DISCHARGE_DENSITY);
-        } catch (IllegalArgumentException e) {
-            out.println("   H-beta Stark width " + betaWidth + " nm: " + e.getMessage());
-        }
-    }
-
-    /** One Balmer multiplet: frequency in Hz, upper weight, Einstein A in s^-1. */
-    private record BalmerLine(double frequency, double upperWeight, double einsteinA) {
-    }
-
-    private static BalmerLine balmerLine(HydrogenLikeModel model, int upper) {
-        LineTable table = HydrogenLikeLines.of(model).multiplets(upper, PhysicalConstants.C / 700e-9,
-                PhysicalConstants.C / 380e-9);
-        for (int t = 0; t < table.size(); t++) {
-            if (table.upperN(t) == upper && table.lowerN(t) == 2) {
-                return new BalmerLine(table.frequency(t), table.upperWeight(t), table.einsteinA(t));
-            }
-        }
-        throw new IllegalStateException("no Balmer line from n = " + upper);
     }
 
     /**
-     * The line catalog of the discharge: every multiplet of the ions between 395 and 680 nm;
-     * with a D/H ratio, H and D lines closer than {@code blendWithin} nm (and not among the
-     * upper levels seen resolved) become one entry at their flux-weighted mean, labelled
-     * "H I+D I ...".
+     * Temperature and density from the Balmer lines matched, by the library's
+     * {@link BalmerPlasmaFit} (Voigt fits with the D companion, Boltzmann plot, H-beta Stark width).
      */
-    private static LineCatalog catalog(List<Ions.Ion> ions, double ratio, double blendWithin,
-            java.util.Set<Integer> resolvedUpper) {
-        LineCatalog.Builder builder = LineCatalog.builder();
-        LineTable hydrogen = null;
-        LineTable deuterium = null;
-        for (Ions.Ion ion : ions) {
-            LineTable table = HydrogenLikeLines.of(ion.model()).multiplets(12, PhysicalConstants.C / 680e-9,
-                    PhysicalConstants.C / 395e-9);
-            String notation = ion.species().notation();
-            if (notation.equals("H I")) {
-                hydrogen = table;
-            } else if (notation.equals("D I")) {
-                deuterium = table;
-            }
-            for (int i = 0; i < table.size(); i++) {
-                boolean paired = ratio > 0 && (notation.equals("H I") || notation.equals("D I"));
-                if (!paired) {
-                    builder.add(ion.species(), PhysicalConstants.C / table.frequency(i), 0,
-                            table.upperWeight(i) * table.einsteinA(i), notation + " " + table.lineName(i));
-                }
-            }
+    private void plasma(double[] counts, DispersionSolution solution, double redshift,
+            IdentificationSearch.Report report, Candidates candidates, Ions.Ion hydrogen, Ions.Ion deuterium,
+            double ratio, Results results) {
+        BalmerPlasmaFit.Result fit = BalmerPlasmaFit.defaults().withInstrumentFwhm(RESPONSE_FWHM)
+                .fit(BalmerPlasmaFit.problem(solution.pixelCentreWavelengths(PIXELS), Medium.air(), counts)
+                        .readNoise(6).emitter(hydrogen.model()).companion(deuterium.model(), ratio).redshift(redshift)
+                        .matchedLines(report.identification(), report.lines(), candidates).build());
+        if (fit.temperature().isPresent()) {
+            BalmerPlasmaFit.Temperature t = fit.temperature().get();
+            results.temperature = t.kelvin();
+            results.temperatureUncertainty = t.sigmaKelvin();
+            out.printf(Locale.ROOT, "   Excitation temperature, Boltzmann plot of %d Balmer lines (Voigt-fitted fluxes): "
+                    + "%.0f +- %.0f K%n   (invented truth %.0f K)%n", t.lines(), t.kelvin(), t.sigmaKelvin(),
+                    DISCHARGE_TEMPERATURE);
         }
-        if (ratio > 0) {
-            Species h = ions.get(0).species();
-            Species d = ions.get(1).species();
-            for (int i = 0; i < hydrogen.size(); i++) {
-                int j = sameTransition(deuterium, hydrogen.upperN(i), hydrogen.lowerN(i));
-                double strength = hydrogen.upperWeight(i) * hydrogen.einsteinA(i);
-                double lh = PhysicalConstants.C / hydrogen.frequency(i);
-                double ld = j < 0 ? Double.NaN : PhysicalConstants.C / deuterium.frequency(j);
-                if (j >= 0 && Math.abs(lh - ld) * 1e9 < blendWithin && !resolvedUpper.contains(hydrogen.upperN(i))) {
-                    builder.add(h, (lh + ratio * ld) / (1 + ratio), 0, strength,
-                            "H I+D I " + hydrogen.lineName(i));
-                } else {
-                    builder.add(h, lh, 0, strength, "H I " + hydrogen.lineName(i));
-                    if (j >= 0) {
-                        builder.add(d, ld, 0, strength * ratio, "D I " + deuterium.lineName(j));
-                    }
-                }
-            }
+        if (fit.density().isPresent()) {
+            BalmerPlasmaFit.Density d = fit.density().get();
+            results.density = d.perCubicMetre();
+            out.printf(Locale.ROOT, "   Electron density from the H-%s Stark width %.4f +- %.4f nm (Voigt fit with the"
+                    + " D line):%n   %.2e +- %.1e m^-3 (invented truth %.1e)%n", d.upperN() == 4 ? "beta" : "alpha",
+                    d.starkFwhmNm(), d.starkFwhmSigmaNm(), d.perCubicMetre(), d.sigmaPerCubicMetre(), DISCHARGE_DENSITY);
         }
-        return builder.build();
-    }
-
-    private static int sameTransition(LineTable table, int upperN, int lowerN) {
-        for (int i = 0; i < table.size(); i++) {
-            if (table.upperN(i) == upperN && table.lowerN(i) == lowerN) {
-                return i;
-            }
+        for (String note : fit.notes()) {
+            out.println("   " + note);
         }
-        return -1;
-    }
-
-    private static int find(Identification id, LineCatalog catalog, String label) {
-        for (int k = 0; k < id.peaks().size(); k++) {
-            if (id.status(k) == Identification.MATCHED && catalog.label(id.line(k)).equals(label)) {
-                return k;
-            }
-        }
-        return -1;
-    }
-
-    private static int upperN(String label) {
-        String[] greek = {"alpha", "beta", "gamma", "delta", "epsilon"};
-        for (int g = 0; g < greek.length; g++) {
-            if (label.endsWith(greek[g])) {
-                return g + 3;
-            }
-        }
-        // "H I Balmer 9-2"
-        String tail = label.substring(label.lastIndexOf(' ') + 1);
-        return Integer.parseInt(tail.substring(0, tail.indexOf('-')));
-    }
-
-    private static double alphaFrequency(HydrogenLikeModel model) {
-        LineTable table = HydrogenLikeLines.of(model).multiplets(3, PhysicalConstants.C / 700e-9,
-                PhysicalConstants.C / 600e-9);
-        return table.frequency(0);
     }
 
     // ---- 3. A rubidium Rydberg sensor ------------------------------------------------------
@@ -572,17 +406,10 @@ final class DemoScenario {
     }
 
     /** The discharge's peaks in the ritzwerk-peaks format, for {@code ritzwerk identify}. */
-    private static void writePeaks(Path file, Peaks peaks, DispersionSolution solution, double[] nm, double[] nmSigma)
-            throws IOException {
-        int n = nm.length;
-        double[] intensities = new double[n];
-        double[] widths = new double[n];
-        for (int k = 0; k < n; k++) {
-            intensities[k] = Math.max(peaks.flux(k), 1e-9);
-            widths[k] = peaks.fwhm(k) * Math.abs(solution.dispersionAt(peaks.centre(k)));
-        }
-        PeakFiles.Peaks list = new PeakFiles.Peaks("wrenfield-discharge", Unit.NANOMETRE, Medium.air(), nm, nmSigma,
-                intensities, widths, new int[n]);
+    private static void writePeaks(Path file, CalibratedPeaks peaks) throws IOException {
+        PeakFiles.Peaks list = new PeakFiles.Peaks("wrenfield-discharge", Unit.NANOMETRE, peaks.medium(),
+                peaks.wavelengthsNm(), peaks.wavelengthSigmasNm(), peaks.fluxes(1e-9), peaks.fwhmsNm(),
+                new int[peaks.size()]);
         OutputFiles.writeString(file, PeakFiles.writeCsv(list, "peaks of the H-D-He discharge (demo)",
                 "ritzwerk demo, invented scenario, calibrated with calibration.json", "computed", "1"));
     }

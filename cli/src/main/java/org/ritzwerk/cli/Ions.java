@@ -66,22 +66,16 @@ final class Ions {
     static Atoms atoms(DataContext data, List<String> speciesOptions, String tierId) {
         List<String> oneElectron = new ArrayList<>();
         List<AlkaliAtom> alkalis = new ArrayList<>();
-        for (String option : speciesOptions) {
-            for (String text : option.split(",")) {
-                if (text.isBlank()) {
-                    throw new IllegalArgumentException("--species has an empty entry in '" + option + "'");
-                }
-                Species parsed = Species.parse(text);
-                if (parsed.isHydrogenLike()) {
-                    oneElectron.add(text);
-                } else if (parsed.charge() == 0 && data.alkaliSpecies().stream()
-                        .anyMatch(s -> s.z() == parsed.z())) {
-                    alkalis.add(data.alkaliAtom(parsed));
-                } else {
-                    throw new IllegalArgumentException(parsed.notation() + ": levels and lines cover one-electron ions "
-                            + "(H I, D I, He II, C VI, ...) and the neutral alkali atoms "
-                            + data.alkaliSpecies().stream().map(Species::notation).toList());
-                }
+        for (String text : entries(speciesOptions)) {
+            Species parsed = Species.parse(text);
+            if (parsed.isHydrogenLike()) {
+                oneElectron.add(text);
+            } else if (parsed.charge() == 0 && data.alkaliSpecies().stream().anyMatch(s -> s.z() == parsed.z())) {
+                alkalis.add(data.alkaliAtom(parsed));
+            } else {
+                throw new IllegalArgumentException(parsed.notation() + ": levels and lines cover one-electron ions "
+                        + "(H I, D I, He II, C VI, ...) and the neutral alkali atoms "
+                        + data.alkaliSpecies().stream().map(Species::notation).toList());
             }
         }
         return new Atoms(oneElectron.isEmpty() ? List.of() : of(data, oneElectron, tierId), alkalis);
@@ -96,19 +90,28 @@ final class Ions {
     static List<Ion> of(DataContext data, List<String> speciesOptions, String tierId) {
         Tier tier = Tier.fromId(tierId);
         List<Ion> ions = new ArrayList<>();
+        for (String text : entries(speciesOptions)) {
+            Species species = Species.parse(text);
+            if (!species.isHydrogenLike()) {
+                throw new IllegalArgumentException(species.notation() + " has " + (species.z() - species.charge())
+                        + " electrons; levels and lines cover one-electron ions (H I, D I, He II, C VI, ...) so far");
+            }
+            ions.add(new Ion(species, HydrogenLikeModel.of(data.nucleus(species), tier)));
+        }
+        return ions;
+    }
+
+    /** @return the entries of the --species values, each comma-separated list split; none blank */
+    private static List<String> entries(List<String> speciesOptions) {
+        List<String> entries = new ArrayList<>();
         for (String option : speciesOptions) {
             for (String text : option.split(",")) {
                 if (text.isBlank()) {
                     throw new IllegalArgumentException("--species has an empty entry in '" + option + "'");
                 }
-                Species species = Species.parse(text);
-                if (!species.isHydrogenLike()) {
-                    throw new IllegalArgumentException(species.notation() + " has " + (species.z() - species.charge())
-                            + " electrons; levels and lines cover one-electron ions (H I, D I, He II, C VI, ...) so far");
-                }
-                ions.add(new Ion(species, HydrogenLikeModel.of(data.nucleus(species), tier)));
+                entries.add(text);
             }
         }
-        return ions;
+        return entries;
     }
 }

@@ -1,8 +1,8 @@
 package org.ritzwerk.cli;
 
-import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.ReferenceDataException;
 
 /** The line lists that --lines (and --lamp) name: a user's file or a data set id. */
 final class LineSets {
@@ -11,6 +11,9 @@ final class LineSets {
     }
 
     /**
+     * The typed load of {@link DataContext#lineList}, with the option named when the set is of
+     * another kind.
+     *
      * @param context the data context
      * @param set     a path to a line-list file, or a data set id such as {@code lamp-ne-i}
      * @param option  the option that named it, for messages
@@ -18,11 +21,13 @@ final class LineSets {
      * @throws IllegalArgumentException when the set is not a line list
      */
     static LineList load(DataContext context, String set, String option) {
-        DataSet data = context.dataSet(set);
-        if (!(data instanceof LineList)) {
-            throw new IllegalArgumentException(option + " " + set + " is a " + data.info().kind().id()
-                    + " set, not a line list");
+        try {
+            return context.lineList(set);
+        } catch (ReferenceDataException e) {
+            if (ReferenceDataException.WRONG_KIND.equals(e.code())) {
+                throw new IllegalArgumentException(option + " " + e.getMessage(), e);
+            }
+            throw e;
         }
-        return (LineList) data;
     }
 }

@@ -28,6 +28,9 @@ class DemoTest {
                 DataOptions.context(java.util.List.of())).run();
         String report = text.toString();
         assertTrue(report.contains("an invented scenario"), report);
+        // The library's fits left nothing unreported and nothing non-finite in the text.
+        assertTrue(!report.contains("NaN") && !report.contains("Infinity"), report);
+        assertTrue(report.contains("D/H from their fluxes 0.5"), report);
         // The lamp is described generically, never by a maker's trademark.
         assertTrue(report.replaceAll("\\s+", " ").contains("a small neon calibration lamp"), report);
         assertTrue(Files.readString(dir.resolve("out").resolve("neon-lamp.csv")).contains("a small neon calibration lamp"));

@@ -13,6 +13,7 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.plasma.BalmerPlasmaFit;
 import org.ritzwerk.engine.plasma.BoltzmannPlot;
 import org.ritzwerk.engine.plasma.IonisationBalance;
 import org.ritzwerk.engine.profile.BalmerStark;
@@ -148,6 +149,28 @@ class UserGuideTest {
         Noise.apply(again, 4.0, 2026L, again);
         assertEquals(java.util.Arrays.toString(pixels), java.util.Arrays.toString(again));
         assertTrue(clean[0] > 0);
+    }
+
+    @Test
+    void balmerLinesOfAHydrogenDeuteriumPlasma() {
+        // Proton and deuteron masses: CODATA 2018. The plasma (9000 K, 3e20 m^-3, D/H 0.5) is invented.
+        HydrogenLikeModel h = HydrogenLikeModel.of(new Nucleus(1, 1, PhysicalConstants.PROTON_MASS.value(), 1,
+                OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018"), Tier.DIRAC);
+        HydrogenLikeModel d = HydrogenLikeModel.of(new Nucleus(1, 2, PhysicalConstants.DEUTERON_MASS.value(), 2,
+                OptionalDouble.empty(), OptionalDouble.empty(), "CODATA 2018"), Tier.DIRAC);
+        PixelGrid grid = PixelGrid.linear(400, 670, 5400);             // 0.05 nm pixels, standard air
+        double[] counts = Scene.builder(grid).medium(Medium.air()).temperature(9000).electronDensity(3e20)
+                .nMax(8).hydrogenLike(Species.parse("H I"), h, 1).hydrogenLike(Species.parse("D I"), d, 0.5)
+                .instrument(Instrument.ofFwhm(0.10)).peakCounts(40_000).noise(6, 7L).build().render(1).counts();
+        double[] nm = java.util.stream.IntStream.range(0, grid.pixels()).mapToDouble(grid::centre).toArray();
+
+        BalmerPlasmaFit.Result fit = BalmerPlasmaFit.defaults().withInstrumentFwhm(0.10)
+                .fit(BalmerPlasmaFit.problem(nm, Medium.air(), counts).readNoise(6)
+                        .emitter(h).companion(d, 0.5).line(3).line(4).line(5).line(6).build());
+
+        assertEquals(4, fit.lines().size());
+        assertEquals(9000, fit.temperature().orElseThrow().kelvin(), 450);       // within 5 %
+        assertEquals(3e20, fit.density().orElseThrow().perCubicMetre(), 0.75e20); // within 25 %
     }
 
     @Test

@@ -125,6 +125,25 @@ public final class AlkaliLines {
     }
 
     /**
+     * The line joining two states named in either order: the one of higher energy in the atom's
+     * model is the upper state.
+     *
+     * @param atom the atom
+     * @param a    one state
+     * @param b    the other
+     * @return the line's frequency, A, f and S, with its upper and lower state
+     * @throws IllegalArgumentException when the two are not joined by an electric-dipole line
+     * @throws RydbergException when either state has no energy in the model
+     */
+    public static Line between(AlkaliAtom atom, State a, State b) {
+        if (!isElectricDipole(a, b)) {
+            throw new IllegalArgumentException(a.notation() + " and " + b.notation()
+                    + " are not joined by an electric-dipole line (needs Delta l = 1, Delta j <= 1)");
+        }
+        return atom.energyPerCm(a) > atom.energyPerCm(b) ? line(atom, a, b) : line(atom, b, a);
+    }
+
+    /**
      * @param atom  the atom
      * @param upper the upper state
      * @param lower the lower state

@@ -43,6 +43,25 @@ class AlkaliLinesTest {
     }
 
     @Test
+    void theLineBetweenTwoStatesTakesTheHigherAsUpper() {
+        AlkaliAtom rb = TestAtoms.rubidium();
+        State s = State.parse("5s1/2");
+        State p = State.parse("5p3/2");
+        assertEquals(AlkaliLines.line(rb, p, s), AlkaliLines.between(rb, s, p));
+        assertEquals(AlkaliLines.line(rb, p, s), AlkaliLines.between(rb, p, s));
+        // 50d5/2 lies above 51p3/2: effective quantum numbers 50 - 1.35 = 48.65 and 51 - 2.64 =
+        // 48.36 with the rubidium d and p quantum defects (T. F. Gallagher, Rydberg Atoms
+        // (Cambridge, 1994), ch. 2; recalled, from memory; the model's own defects give the order).
+        AlkaliLines.Line rydberg = AlkaliLines.between(rb, State.parse("51p3/2"), State.parse("50d5/2"));
+        assertEquals(State.parse("50d5/2"), rydberg.upper());
+        assertEquals(State.parse("51p3/2"), rydberg.lower());
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> AlkaliLines.between(rb, s, State.parse("6s1/2")));
+        assertEquals("5s 2S1/2 and 6s 2S1/2 are not joined by an electric-dipole line (needs Delta l = 1, Delta j <= 1)",
+                e.getMessage());
+    }
+
+    @Test
     void selectionRulesAndBadWindows() {
         assertTrue(AlkaliLines.isElectricDipole(State.parse("5s1/2"), State.parse("5p3/2")));
         assertFalse(AlkaliLines.isElectricDipole(State.parse("5s1/2"), State.parse("6s1/2")));
