@@ -23,16 +23,43 @@ import java.util.Objects;
  * robustly (median and MAD) from the first pass's matches, weighted by v (default 1; 0 ignores
  * intensities). Lower is better.
  *
- * <p><b>Assignment.</b> Each peak explains at most one line and each line at most one peak. Peaks
- * that share candidate lines form a component; every component is solved exactly as a
- * minimum-cost assignment that first maximises the number of matched peaks (Hungarian method,
- * H. W. Kuhn, Naval Res. Logist. Q. 2, 83 (1955), with potentials), except that a component of
+ * <p><b>Assignment.</b> Each peak explains at most one line and each ordinary line at most one
+ * peak. Peaks that share candidate lines form a component; every component is solved exactly as
+ * a minimum-cost assignment that first maximises the number of matched peaks (Hungarian method,
+ * H. W. Kuhn, Naval Res. Logist. Q. 2, 83 (1955), with potentials; for an absolute tolerance a
+ * dynamic programme over the non-crossing assignments, see below), except that a component of
  * more than {@link #MAX_EXACT_COMPONENT} peaks falls back to a greedy choice by cost, counted in
  * {@link Identification#greedyComponents()}.
  *
- * <p><b>Ambiguity.</b> A matched peak is ambiguous when another candidate's cost is within the
- * ambiguity margin (default 2, a likelihood ratio of e^2) of the chosen one and the two lines
- * are closer than two scoring uncertainties: the data cannot separate them.
+ * <p><b>Blends.</b> A declared blend (an unresolved multiplet) may explain several peaks, but
+ * only peaks it can explain together: the shortest and the longest of them, at x_a &lt;= x_b,
+ * must satisfy {@code x_b - x_a <= D + h(x_a; sigma_a, sigma_b)}, where D is the blend's
+ * spread (the span of its components' wavelengths, {@link LineCatalog#blendSpread}; 0 when not
+ * declared) and h the tolerance's half-width applied to the difference of two positions
+ * (absolute: the width; relative: the fraction times x_a; k-sigma:
+ * {@code k sqrt(sigma_a^2 + sigma_b^2)}). Peaks further apart than that would need two
+ * components further apart than the blend has, so the blend explains at most one group of
+ * them and the rest compete for the other candidates. A component whose optimum breaks the
+ * rule is solved again for each choice of the group's shortest peak a (the blend kept only for
+ * peaks within reach of a), and the best of these is taken (exact; past
+ * {@value Component#SOLVE_BUDGET} solves a component keeps each blend for the window of its
+ * cheapest peak instead and counts as greedy).
+ *
+ * <p><b>Ambiguity.</b> With the cost c as the negative log of likelihood times prior, the
+ * posterior probability of an assignment of the component is proportional to exp(-sum c)
+ * (Bayes' rule; the Gaussian normalisation 1/s is left out, exact when a peak's candidates
+ * share the scoring uncertainty, as under absolute and relative tolerances). A matched peak's
+ * odds are those of the optimal assignment against the best assignment with as many matched
+ * peaks in which the peak explains a different line: {@code odds = exp(C_runner-up - C_best)}.
+ * The peak is ambiguous when the odds are below the threshold (default
+ * {@value #DEFAULT_AMBIGUITY_ODDS} to 1, {@link #withAmbiguityOdds}), so that an unflagged
+ * peak's line is wrong with posterior probability below 1 / 21 when the strengths are good
+ * priors, and far less on average. A peak alone in its component compares its two cheapest
+ * candidates; otherwise the component is solved again with the peak barred from its line,
+ * except where a bound settles it (no other peak wants the line: the alternative costs at
+ * least the peak's own cost difference). A peak that has no other candidate is never
+ * ambiguous; which of several peaks a line belongs to is not ambiguity (the others are left
+ * unexplained).
  *
  * <p>Immutable and thread-safe; no object is made per peak or candidate.
  */
@@ -41,45 +68,60 @@ public final class Identifier {
     /** Components with more peaks than this are assigned greedily. */
     public static final int MAX_EXACT_COMPONENT = 300;
 
+    /** The default posterior odds below which a matched peak is ambiguous: 20 to 1. */
+    public static final double DEFAULT_AMBIGUITY_ODDS = 20;
+
     /** The cost of leaving a peak unmatched: above any real cost (at most a few hundred), small
      *  enough that the potentials keep their precision. */
     private static final double UNMATCHED = 1e6;
 
     private final Tolerance tolerance;
     private final double strengthWeight;
-    private final double ambiguityMargin;
+    /** ln of the ambiguity odds. */
+    private final double logOdds;
     private final double strongLine;
 
     private final double intensityWeight;
 
-    private Identifier(Tolerance tolerance, double strengthWeight, double ambiguityMargin, double strongLine,
+    private Identifier(Tolerance tolerance, double strengthWeight, double logOdds, double strongLine,
             double intensityWeight) {
         this.tolerance = Objects.requireNonNull(tolerance, "tolerance");
         this.strengthWeight = strengthWeight;
-        this.ambiguityMargin = ambiguityMargin;
+        this.logOdds = logOdds;
         this.strongLine = strongLine;
         this.intensityWeight = intensityWeight;
     }
 
     /**
      * @param tolerance how far a peak may lie from its line
-     * @return an identifier with strength weight 1, ambiguity margin 2 and strong lines those
-     *         with relative strength at least 0.3
+     * @return an identifier with strength weight 1, intensity weight 1, ambiguity odds 20 to 1
+     *         and strong lines those with relative strength at least 0.3
      */
     public static Identifier of(Tolerance tolerance) {
-        return new Identifier(tolerance, 1, 2, 0.3, 1);
+        return new Identifier(tolerance, 1, Math.log(DEFAULT_AMBIGUITY_ODDS), 0.3, 1);
     }
 
     /** @param weight w in the cost, finite and >= 0 @return a copy with that weight */
     public Identifier withStrengthWeight(double weight) {
         check("strength weight", weight);
-        return new Identifier(tolerance, weight, ambiguityMargin, strongLine, intensityWeight);
+        return new Identifier(tolerance, weight, logOdds, strongLine, intensityWeight);
     }
 
-    /** @param margin cost difference below which two close candidates are ambiguous, >= 0 @return a copy */
-    public Identifier withAmbiguityMargin(double margin) {
-        check("ambiguity margin", margin);
-        return new Identifier(tolerance, strengthWeight, margin, strongLine, intensityWeight);
+    /**
+     * @param odds posterior odds of a peak's assignment against its runner-up below which the
+     *             peak is ambiguous; finite and at least 1 (1 flags only exact ties)
+     * @return a copy with that threshold
+     */
+    public Identifier withAmbiguityOdds(double odds) {
+        if (!(odds >= 1) || Double.isInfinite(odds)) {
+            throw new IllegalArgumentException("ambiguity odds must be finite and >= 1, got " + odds);
+        }
+        return new Identifier(tolerance, strengthWeight, Math.log(odds), strongLine, intensityWeight);
+    }
+
+    /** @return the posterior odds below which a matched peak is ambiguous */
+    public double ambiguityOdds() {
+        return Math.exp(logOdds);
     }
 
     /** @param threshold relative strength from which a line counts as strong, in (0, 1] @return a copy */
@@ -87,7 +129,7 @@ public final class Identifier {
         if (!(threshold > 0 && threshold <= 1)) {
             throw new IllegalArgumentException("strong-line threshold must be in (0, 1], got " + threshold);
         }
-        return new Identifier(tolerance, strengthWeight, ambiguityMargin, threshold, intensityWeight);
+        return new Identifier(tolerance, strengthWeight, logOdds, threshold, intensityWeight);
     }
 
     /**
@@ -97,7 +139,7 @@ public final class Identifier {
      */
     public Identifier withIntensityWeight(double weight) {
         check("intensity weight", weight);
-        return new Identifier(tolerance, strengthWeight, ambiguityMargin, strongLine, weight);
+        return new Identifier(tolerance, strengthWeight, logOdds, strongLine, weight);
     }
 
     private static void check(String what, double value) {
@@ -259,7 +301,7 @@ public final class Identifier {
         double[] pw = peaks.wavelengths();
         double[] ps = peaks.sigmas();
         double[] lw = lines.wavelengths();
-        Component component = new Component(lines.blends());
+        Component component = new Component(lines.blends(), lines.blendSpreads(), tolerance);
         double[] penalty = lines.negativeLogStrengths();
         boolean exactReach = tolerance.kind() != Tolerance.Kind.K_SIGMA;
         int lo = 0;
@@ -310,7 +352,7 @@ public final class Identifier {
                 if (firstLine < 0) {
                     firstLine = j;
                     if (component.peaks > 0 && j > component.maxLine) {
-                        finish(component, results, pw, ps, lines, order);
+                        finish(component, results, pw, ps, order);
                         before = 0;
                     }
                 }
@@ -324,7 +366,7 @@ public final class Identifier {
             // side of it may still share a line; its result is the default, unexplained.
         }
         if (component.peaks > 0) {
-            finish(component, results, pw, ps, lines, order);
+            finish(component, results, pw, ps, order);
         }
         return true;
     }
@@ -345,56 +387,68 @@ public final class Identifier {
     }
 
     /** Solves the buffered component, writes its peaks' results and empties the buffer. */
-    private void finish(Component c, Results results, double[] pw, double[] ps, LineCatalog lines, int[] order) {
-        if (c.peaks == 1 && c.size == 1) {
-            // The common case: one peak, one candidate, nothing to weigh.
+    private void finish(Component c, Results results, double[] pw, double[] ps, int[] order) {
+        if (c.peaks == 1) {
+            // One peak: its cheapest candidate; the posterior odds against the runner-up are
+            // exp(cost difference).
             int k = c.peakOrder[0];
             int i = order == null ? k : order[k];
-            int j = c.line[0];
+            int best = 0;
+            for (int q = 1; q < c.size; q++) {
+                if (c.cost[q] < c.cost[best]) {
+                    best = q;
+                }
+            }
+            double second = Double.POSITIVE_INFINITY;
+            for (int q = 0; q < c.size; q++) {
+                if (q != best) {
+                    second = Math.min(second, c.cost[q]);
+                }
+            }
+            int j = c.line[best];
             results.used[j] = true;
             results.linePlusOne[i] = j + 1;
+            results.status[i] = second - c.cost[best] < logOdds ? Identification.AMBIGUOUS : Identification.MATCHED;
+            c.clear();
+            return;
+        }
+        if (c.minLine == c.maxLine && !c.isBlend(c.minLine)) {
+            // One ordinary line wanted by several peaks: the cheapest peak takes it. No peak has
+            // another line to turn to, so the one matched is not ambiguous between lines.
+            int best = 0;
+            for (int q = 1; q < c.size; q++) {
+                if (c.cost[q] < c.cost[best]) {
+                    best = q;
+                }
+            }
+            int k = c.peakOrder[c.peakOf(best)];
+            int i = order == null ? k : order[k];
+            results.used[c.minLine] = true;
+            results.linePlusOne[i] = c.minLine + 1;
             results.status[i] = Identification.MATCHED;
             c.clear();
             return;
         }
-        if (c.peaks == 1) {
-            c.cheapestForTheOnlyPeak();
-        } else if (c.peaks <= MAX_EXACT_COMPONENT && tolerance.kind() == Tolerance.Kind.ABSOLUTE) {
-            c.solveNonCrossing();
-        } else if (c.eachPeakBestDistinct()) {
-            // Every peak matched to its own cheapest line: the most matches at the least cost.
-        } else if (c.peaks <= MAX_EXACT_COMPONENT) {
-            c.solveExactly();
-        } else {
+        c.prepare(pw, ps, order);
+        c.solves = 0;
+        c.inexact = false;
+        c.solve(false);
+        if (c.inexact) {
             results.greedy.incrementAndGet();
-            c.solveGreedily();
         }
-        double[] lw = lines.wavelengths();
+        double optimum = c.objective();
+        int[] chosen = Arrays.copyOf(c.chosen, c.peaks);
         for (int p = 0; p < c.peaks; p++) {
             int k = c.peakOrder[p];
             int i = order == null ? k : order[k];
-            int j = c.chosen[p];
+            int j = chosen[p];
             if (j < 0) {
-                results.unexplained(i);
                 continue;
             }
             results.used[j] = true;
             results.linePlusOne[i] = j + 1;
-            double chosenCost = Double.POSITIVE_INFINITY;
-            for (int q = c.start[p]; q < c.start[p + 1]; q++) {
-                if (c.line[q] == j) {
-                    chosenCost = c.cost[q];
-                }
-            }
-            double s = tolerance.scoringSigma(pw[i], ps[i], lines.sigma(j));
-            byte status = Identification.MATCHED;
-            for (int q = c.start[p]; q < c.start[p + 1]; q++) {
-                int other = c.line[q];
-                if (other != j && c.cost[q] - chosenCost < ambiguityMargin && Math.abs(lw[other] - lw[j]) < 2 * s) {
-                    status = Identification.AMBIGUOUS;
-                }
-            }
-            results.status[i] = status;
+            results.status[i] = c.logOddsAgainstRunnerUp(p, j, chosen, optimum, logOdds) < logOdds
+                    ? Identification.AMBIGUOUS : Identification.MATCHED;
         }
         c.clear();
     }
@@ -423,17 +477,28 @@ public final class Identifier {
 
     /**
      * The peaks of one component and their candidates, reused from one component to the next:
-     * candidates of the p-th peak are {@code line/cost[start[p] .. start[p+1])}.
+     * candidates of the p-th peak are {@code line/cost[start[p] .. start[p+1])}. A candidate is
+     * switched off for a re-solve by setting its cost to {@link #OFF}.
      */
     private static final class Component {
+        /** The cost of a candidate that a re-solve may not use. */
+        static final double OFF = Double.POSITIVE_INFINITY;
+        /** Re-solves allowed per component for the blend rule before it falls back to a greedy repair. */
+        static final int SOLVE_BUDGET = 256;
+
         /** The catalog's blend flags, or null when there is no blend. */
         private final boolean[] blend;
+        /** The catalog's blend spreads, metres. */
+        private final double[] spread;
+        private final Tolerance tolerance;
 
-        Component(boolean[] blend) {
+        Component(boolean[] blend, double[] spread, Tolerance tolerance) {
             this.blend = blend;
+            this.spread = spread;
+            this.tolerance = tolerance;
         }
 
-        private boolean isBlend(int j) {
+        boolean isBlend(int j) {
             return blend != null && blend[j];
         }
 
@@ -467,9 +532,15 @@ public final class Identifier {
         int[] chosen = new int[16];
         int[] line = new int[64];
         double[] cost = new double[64];
+        /** Position and uncertainty of each peak of the component (metres), set by {@link #prepare}. */
+        double[] x = new double[16];
+        double[] sigma = new double[16];
         int peaks;
         int size;
         int maxLine = -1;
+        int minLine = Integer.MAX_VALUE;
+        int solves;
+        boolean inexact;
         private final Assignment solver = new Assignment();
 
         void addCandidate(int j, double c) {
@@ -481,6 +552,7 @@ public final class Identifier {
             cost[size] = c;
             size++;
             maxLine = Math.max(maxLine, j);
+            minLine = Math.min(minLine, j);
         }
 
         /** Ends the candidates of the peak at sorted position k, whose first candidate is at {@code from}. */
@@ -500,18 +572,228 @@ public final class Identifier {
             peaks = 0;
             size = 0;
             maxLine = -1;
+            minLine = Integer.MAX_VALUE;
         }
 
-        void cheapestForTheOnlyPeak() {
-            int best = -1;
-            double bestCost = Double.POSITIVE_INFINITY;
-            for (int q = 0; q < size; q++) {
-                if (cost[q] < bestCost) {
-                    bestCost = cost[q];
-                    best = line[q];
+        /** Reads the positions and uncertainties of the component's peaks. */
+        void prepare(double[] pw, double[] ps, int[] order) {
+            if (x.length < peaks) {
+                x = new double[2 * peaks];
+                sigma = new double[2 * peaks];
+            }
+            for (int p = 0; p < peaks; p++) {
+                int i = order == null ? peakOrder[p] : order[peakOrder[p]];
+                x[p] = pw[i];
+                sigma[p] = ps[i];
+            }
+        }
+
+        /**
+         * Solves the component into {@link #chosen}: the most matches at the least cost, with no
+         * blend given peaks it cannot explain together.
+         *
+         * @param modified whether some costs were changed (switched off or lowered), which rules
+         *                 out the non-crossing shortcut
+         */
+        void solve(boolean modified) {
+            solveOnce(modified);
+            if (blend == null) {
+                return;
+            }
+            int b = violatedBlend();
+            if (b < 0) {
+                return;
+            }
+            if (solves >= SOLVE_BUDGET) {
+                repairGreedily();
+                return;
+            }
+            // Branch: the peaks that blend b explains together have some shortest peak a, and
+            // all of them lie within b's reach of it. Try every a, keep the best.
+            double bestObjective = Double.POSITIVE_INFINITY;
+            int[] best = null;
+            double[] saved = Arrays.copyOf(cost, size);
+            for (int a = 0; a < peaks; a++) {
+                if (candidate(a, b) < 0) {
+                    continue;
+                }
+                int off = 0;
+                for (int p = 0; p < peaks; p++) {
+                    int q = candidate(p, b);
+                    if (q >= 0 && cost[q] != OFF && !(p >= a && together(b, a, p))) {
+                        cost[q] = OFF;
+                        off++;
+                    }
+                }
+                if (off > 0) {
+                    solves++;
+                    solve(true);
+                    double objective = objective();
+                    if (objective < bestObjective) {
+                        bestObjective = objective;
+                        best = Arrays.copyOf(chosen, peaks);
+                    }
+                }
+                System.arraycopy(saved, 0, cost, 0, size);
+            }
+            if (best == null) {
+                repairGreedily();
+            } else {
+                System.arraycopy(best, 0, chosen, 0, peaks);
+            }
+        }
+
+        /** Past the budget: keep each overfull blend for the window of its cheapest peak, then re-solve. */
+        private void repairGreedily() {
+            inexact = true;
+            double[] saved = Arrays.copyOf(cost, size);
+            for (int b = violatedBlend(); b >= 0; b = violatedBlend()) {
+                int a = -1;
+                for (int p = 0; p < peaks; p++) {
+                    if (chosen[p] == b && (a < 0 || cost[candidate(p, b)] < cost[candidate(a, b)])) {
+                        a = p;
+                    }
+                }
+                int off = 0;
+                for (int p = 0; p < peaks; p++) {
+                    int q = candidate(p, b);
+                    if (q >= 0 && cost[q] != OFF && !(p == a || together(b, Math.min(a, p), Math.max(a, p)))) {
+                        cost[q] = OFF;
+                        off++;
+                    }
+                }
+                if (off == 0) {
+                    break; // cannot happen: the violating pair includes a peak away from a
+                }
+                solveOnce(true);
+            }
+            System.arraycopy(saved, 0, cost, 0, size);
+        }
+
+        /**
+         * @return whether blend b can explain peaks p &lt;= r together: their separation is at
+         *         most b's spread plus the tolerance of a difference of two positions
+         */
+        private boolean together(int b, int p, int r) {
+            return x[r] - x[p] <= spread[b] + tolerance.halfWidth(x[p], sigma[p], sigma[r]);
+        }
+
+        /** @return a blend whose shortest and longest peaks it cannot explain together, or -1 */
+        private int violatedBlend() {
+            for (int p = 0; p < peaks; p++) {
+                int b = chosen[p];
+                if (b < 0 || !isBlend(b)) {
+                    continue;
+                }
+                int last = p;
+                for (int r = p + 1; r < peaks; r++) {
+                    last = chosen[r] == b ? r : last;
+                }
+                if (last > p && !together(b, p, last)) {
+                    return b;
                 }
             }
-            chosen[0] = best;
+            return -1;
+        }
+
+        /** @return the candidate index of line j for peak p, or -1 */
+        int candidate(int p, int j) {
+            for (int q = start[p]; q < start[p + 1]; q++) {
+                if (line[q] == j) {
+                    return q;
+                }
+            }
+            return -1;
+        }
+
+        /** @return the sum over matched peaks of (cost - UNMATCHED) under the current costs */
+        double objective() {
+            double sum = 0;
+            for (int p = 0; p < peaks; p++) {
+                if (chosen[p] >= 0) {
+                    sum += cost[candidate(p, chosen[p])] - UNMATCHED;
+                }
+            }
+            return sum;
+        }
+
+        private void solveOnce(boolean modified) {
+            if (!modified && peaks <= MAX_EXACT_COMPONENT && tolerance.kind() == Tolerance.Kind.ABSOLUTE) {
+                solveNonCrossing();
+            } else if (eachPeakBestDistinct()) {
+                // Every peak matched to its own cheapest line: the most matches at the least cost.
+            } else if (peaks <= MAX_EXACT_COMPONENT) {
+                solver.solve(this);
+            } else {
+                inexact = true;
+                solveGreedily();
+            }
+        }
+
+        /**
+         * The log posterior odds of peak p's assignment to line j against the best assignment
+         * of the component in which p explains another line (ln of the ratio of the two
+         * assignments' likelihood-times-prior products, i.e. their cost difference).
+         *
+         * @param chosen  the optimal assignment
+         * @param optimum its objective
+         * @param enough  log odds above which the exact value is not needed
+         * @return the log odds, +infinity when p has no other line it could explain with as many
+         *         peaks matched
+         */
+        double logOddsAgainstRunnerUp(int p, int j, int[] chosen, double optimum, double enough) {
+            double local = Double.POSITIVE_INFINITY;
+            int localLine = -1;
+            double own = cost[candidate(p, j)];
+            boolean anyBlend = isBlend(j);
+            for (int q = start[p]; q < start[p + 1]; q++) {
+                if (line[q] != j) {
+                    anyBlend |= isBlend(line[q]);
+                    if (cost[q] - own < local) {
+                        local = cost[q] - own;
+                        localLine = line[q];
+                    }
+                }
+            }
+            if (localLine < 0) {
+                return Double.POSITIVE_INFINITY;
+            }
+            if (!anyBlend && !sharedWithOthers(p, j)) {
+                // Nobody else wants j, so moving p to another line j' cannot help the others:
+                // every alternative costs at least its own difference, and exactly that when j'
+                // was free.
+                if (local >= enough || !usedByOthers(localLine, p, chosen)) {
+                    return local;
+                }
+            }
+            // Re-solve with p barred from j and kept matched (its other candidates made cheaper
+            // by 2 UNMATCHED, more than any other peak's match is worth).
+            double[] saved = Arrays.copyOf(cost, size);
+            for (int q = start[p]; q < start[p + 1]; q++) {
+                cost[q] = line[q] == j ? OFF : cost[q] - 2 * UNMATCHED;
+            }
+            solve(true);
+            double alternative = objective() + (this.chosen[p] >= 0 ? 2 * UNMATCHED : 0);
+            System.arraycopy(saved, 0, cost, 0, size);
+            return alternative - optimum;
+        }
+
+        private boolean sharedWithOthers(int p, int j) {
+            for (int r = 0; r < peaks; r++) {
+                if (r != p && candidate(r, j) >= 0) {
+                    return true;
+                }
+            }
+            return false;
+        }
+
+        private boolean usedByOthers(int j, int p, int[] chosen) {
+            for (int r = 0; r < peaks; r++) {
+                if (r != p && chosen[r] == j) {
+                    return true;
+                }
+            }
+            return false;
         }
 
         /**
@@ -531,20 +813,14 @@ public final class Identifier {
                 }
                 chosen[p] = best;
             }
-            // Candidates come in line order, so a repeated best line shows up among neighbours
-            // only when it is shared; compare every pair for the small components that remain.
             for (int p = 0; p < peaks; p++) {
                 for (int r = p + 1; r < peaks; r++) {
-                    if (chosen[p] == chosen[r] && !isBlend(chosen[p])) {
+                    if (chosen[p] >= 0 && chosen[p] == chosen[r] && !isBlend(chosen[p])) {
                         return false;
                     }
                 }
             }
             return true;
-        }
-
-        void solveExactly() {
-            solver.solve(this);
         }
 
         private double[] table = new double[0];
@@ -557,10 +833,7 @@ public final class Identifier {
          * O(peaks x lines) (A. J. Hoffman, Proc. Symp. Pure Math. 7, 317 (1963); common practice).
          */
         void solveNonCrossing() {
-            int lineMin = Integer.MAX_VALUE;
-            for (int q = 0; q < size; q++) {
-                lineMin = Math.min(lineMin, line[q]);
-            }
+            int lineMin = minLine;
             int lines = maxLine - lineMin + 1;
             int width = lines + 1;
             if (table.length < (peaks + 1) * width) {
@@ -569,7 +842,8 @@ public final class Identifier {
             // table[p][l]: least cost of the first p peaks and first l lines, a match costing
             // (its cost - UNMATCHED) so that more matches always win. Blended lines may serve
             // any number of peaks, so they are no column here: a peak that takes none of the
-            // ordinary lines takes its cheapest blend, if it has one (the "skip" cost).
+            // ordinary lines takes its cheapest blend, if it has one (the "skip" cost); the
+            // blend rule is checked afterwards.
             cheapestBlends();
             for (int l = 0; l <= lines; l++) {
                 table[l] = 0;
@@ -622,13 +896,13 @@ public final class Identifier {
             java.util.Set<Integer> taken = new java.util.HashSet<>();
             for (int q : byCost) {
                 int p = peakOf(q);
-                if (chosen[p] < 0 && (isBlend(line[q]) || taken.add(line[q]))) {
+                if (cost[q] != OFF && chosen[p] < 0 && (isBlend(line[q]) || taken.add(line[q]))) {
                     chosen[p] = line[q];
                 }
             }
         }
 
-        private int peakOf(int candidate) {
+        int peakOf(int candidate) {
             int lo = 0;
             int hi = peaks - 1;
             while (lo < hi) {
@@ -679,8 +953,8 @@ public final class Identifier {
 
     @Override
     public String toString() {
-        return String.format(Locale.ROOT, "Identifier[%s %s, w=%s, margin=%s]", tolerance.kind(), tolerance.value(),
-                strengthWeight, ambiguityMargin);
+        return String.format(Locale.ROOT, "Identifier[%s %s, w=%s, odds=%s]", tolerance.kind(), tolerance.value(),
+                strengthWeight, ambiguityOdds());
     }
 
     /**
@@ -708,7 +982,7 @@ public final class Identifier {
             c.cheapestBlends();
             for (int r = 0; r < rows; r++) {
                 for (int q = c.start[r]; q < c.start[r + 1]; q++) {
-                    if (!c.isBlend(c.line[q])) {
+                    if (!c.isBlend(c.line[q]) && c.cost[q] != Component.OFF) {
                         matrix[r * cols + c.line[q] - lineMin] = c.cost[q];
                     }
                 }
