@@ -27,7 +27,7 @@ public final class Identification {
 
     private final PeakList peaks;
     private final LineCatalog lines;
-    private final byte[] status;
+    /** The line plus one (0 for none), negative when ambiguous. */
     private final int[] linePlusOne;
     private final boolean[] used;
     private final int greedyComponents;
@@ -36,12 +36,11 @@ public final class Identification {
     private final double strengthWeight;
     private final Identifier.IntensityTerm intensityTerm;
 
-    Identification(PeakList peaks, LineCatalog lines, byte[] status, int[] linePlusOne, boolean[] used,
+    Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
             int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
             Identifier.IntensityTerm intensityTerm) {
         this.peaks = peaks;
         this.lines = lines;
-        this.status = status;
         this.linePlusOne = linePlusOne;
         this.used = used;
         this.greedyComponents = greedyComponents;
@@ -101,12 +100,13 @@ public final class Identification {
 
     /** @param i peak index @return {@link #MATCHED}, {@link #AMBIGUOUS} or {@link #UNEXPLAINED} */
     public int status(int i) {
-        return status[i];
+        int v = linePlusOne[i];
+        return v == 0 ? UNEXPLAINED : v > 0 ? MATCHED : AMBIGUOUS;
     }
 
     /** @param i peak index @return the matched line's index in {@link #lines()}, or -1 */
     public int line(int i) {
-        return linePlusOne[i] - 1;
+        return Math.abs(linePlusOne[i]) - 1;
     }
 
     /**
@@ -185,8 +185,8 @@ public final class Identification {
     /** @param wanted a status @return how many peaks have it */
     public int count(int wanted) {
         int count = 0;
-        for (byte s : status) {
-            count += s == wanted ? 1 : 0;
+        for (int i = 0; i < linePlusOne.length; i++) {
+            count += status(i) == wanted ? 1 : 0;
         }
         return count;
     }
@@ -204,8 +204,8 @@ public final class Identification {
     private int[] indices(int wanted) {
         int[] out = new int[count(wanted)];
         int k = 0;
-        for (int i = 0; i < status.length; i++) {
-            if (status[i] == wanted) {
+        for (int i = 0; i < linePlusOne.length; i++) {
+            if (status(i) == wanted) {
                 out[k++] = i;
             }
         }

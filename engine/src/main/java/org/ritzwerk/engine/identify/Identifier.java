@@ -29,7 +29,11 @@ import java.util.Objects;
  * H. W. Kuhn, Naval Res. Logist. Q. 2, 83 (1955), with potentials; for an absolute tolerance a
  * dynamic programme over the non-crossing assignments, see below), except that a component of
  * more than {@link #MAX_EXACT_COMPONENT} peaks falls back to a greedy choice by cost, counted in
- * {@link Identification#greedyComponents()}.
+ * {@link Identification#greedyComponents()}. Small components take exact shortcuts: one peak
+ * (its cheapest candidate), one line (its cheapest peak), two ordinary lines (the best pair of
+ * distinct peaks, O(peaks)), and, without blends, lines spanning at most six indices (dynamic
+ * programming over the set of lines taken, after dropping every peak whose only candidate line
+ * has a cheaper such peak, which no optimum needs).
  *
  * <p><b>Blends.</b> A declared blend (an unresolved multiplet) may explain several peaks, but
  * only peaks it can explain together: the shortest and the longest of them, at x_a &lt;= x_b,
@@ -179,7 +183,7 @@ public final class Identifier {
             results = new Results(peaks.size(), lines.size());
             run(peaks, lines, order, results, 0, peaks.size(), term);
         }
-        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used,
+        return new Identification(peaks, lines, results.linePlusOne, results.used,
                 results.greedy.get(), strongLine, tolerance, strengthWeight, term);
     }
 
@@ -203,7 +207,7 @@ public final class Identifier {
         }
 
         static IntensityTerm from(PeakList peaks, LineCatalog lines, int[] linePlusOne, double weight) {
-            if (weight == 0) {
+            if (weight == 0 || Double.isNaN(peaks.intensity(0))) {
                 return NONE;
             }
             double[] differences = new double[peaks.size()];
@@ -279,7 +283,7 @@ public final class Identifier {
             java.util.stream.IntStream.range(0, cuts.size() - 1).parallel()
                     .forEach(c -> run(peaks, lines, order, results, cuts.get(c), cuts.get(c + 1), term));
         }
-        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used,
+        return new Identification(peaks, lines, results.linePlusOne, results.used,
                 results.greedy.get(), strongLine, tolerance, strengthWeight, term);
     }
 
@@ -407,8 +411,7 @@ public final class Identifier {
             }
             int j = c.line[best];
             results.used[j] = true;
-            results.linePlusOne[i] = j + 1;
-            results.status[i] = second - c.cost[best] < logOdds ? Identification.AMBIGUOUS : Identification.MATCHED;
+            results.linePlusOne[i] = second - c.cost[best] < logOdds ? -(j + 1) : j + 1;
             c.clear();
             return;
         }
@@ -425,11 +428,19 @@ public final class Identifier {
             int i = order == null ? k : order[k];
             results.used[c.minLine] = true;
             results.linePlusOne[i] = c.minLine + 1;
-            results.status[i] = Identification.MATCHED;
             c.clear();
             return;
         }
-        c.prepare(pw, ps, order);
+        if (c.blend == null && c.maxLine == c.minLine + 1) {
+            c.twoLines(results, order, logOdds);
+            c.clear();
+            return;
+        }
+        if (c.blend != null) {
+            c.prepare(pw, ps, order);
+        } else {
+            c.pruneSingleCandidatePeaks();
+        }
         c.solves = 0;
         c.inexact = false;
         c.solve(false);
@@ -437,7 +448,7 @@ public final class Identifier {
             results.greedy.incrementAndGet();
         }
         double optimum = c.objective();
-        int[] chosen = Arrays.copyOf(c.chosen, c.peaks);
+        int[] chosen = c.optimal();
         for (int p = 0; p < c.peaks; p++) {
             int k = c.peakOrder[p];
             int i = order == null ? k : order[k];
@@ -446,26 +457,23 @@ public final class Identifier {
                 continue;
             }
             results.used[j] = true;
-            results.linePlusOne[i] = j + 1;
-            results.status[i] = c.logOddsAgainstRunnerUp(p, j, chosen, optimum, logOdds) < logOdds
-                    ? Identification.AMBIGUOUS : Identification.MATCHED;
+            results.linePlusOne[i] = c.logOddsAgainstRunnerUp(p, j, chosen, optimum, logOdds) < logOdds
+                    ? -(j + 1) : j + 1;
         }
         c.clear();
     }
 
     /**
-     * The output columns, in the peaks' order: five bytes a peak, and nothing written for an
-     * unexplained peak (status 0, line stored plus one so that 0 means none). Residuals, costs
-     * and runners-up are derived on request.
+     * The output columns, in the peaks' order: four bytes a peak, and nothing written for an
+     * unexplained peak: the line plus one (0 for none), negative when the match is ambiguous.
+     * Residuals, costs and runners-up are derived on request.
      */
     private static final class Results {
-        final byte[] status;
         final int[] linePlusOne;
         final boolean[] used;
         final java.util.concurrent.atomic.AtomicInteger greedy = new java.util.concurrent.atomic.AtomicInteger();
 
         Results(int n, int m) {
-            status = new byte[n];
             linePlusOne = new int[n];
             used = new boolean[m];
         }
@@ -487,7 +495,7 @@ public final class Identifier {
         static final int SOLVE_BUDGET = 256;
 
         /** The catalog's blend flags, or null when there is no blend. */
-        private final boolean[] blend;
+        final boolean[] blend;
         /** The catalog's blend spreads, metres. */
         private final double[] spread;
         private final Tolerance tolerance;
@@ -573,6 +581,131 @@ public final class Identifier {
             size = 0;
             maxLine = -1;
             minLine = Integer.MAX_VALUE;
+        }
+
+        private double[] first = new double[16];
+        private double[] second = new double[16];
+
+        /**
+         * The exact assignment and posterior odds of a component of two ordinary lines, in
+         * O(peaks): with two or more peaks able to take them, the best pair of distinct peaks;
+         * else the cheapest single match. A matched peak's runner-up explains the other line,
+         * its own line going to the best other peak when the pair must stay matched.
+         */
+        void twoLines(Results results, int[] order, double logOdds) {
+            if (first.length < peaks) {
+                first = new double[2 * peaks];
+                second = new double[2 * peaks];
+            }
+            int best0 = -1;
+            int next0 = -1;
+            int best1 = -1;
+            int next1 = -1;
+            for (int p = 0; p < peaks; p++) {
+                first[p] = Double.POSITIVE_INFINITY;
+                second[p] = Double.POSITIVE_INFINITY;
+                for (int q = start[p]; q < start[p + 1]; q++) {
+                    if (line[q] == minLine) {
+                        first[p] = cost[q];
+                    } else {
+                        second[p] = cost[q];
+                    }
+                }
+                if (first[p] < Double.POSITIVE_INFINITY) {
+                    if (best0 < 0 || first[p] < first[best0]) {
+                        next0 = best0;
+                        best0 = p;
+                    } else if (next0 < 0 || first[p] < first[next0]) {
+                        next0 = p;
+                    }
+                }
+                if (second[p] < Double.POSITIVE_INFINITY) {
+                    if (best1 < 0 || second[p] < second[best1]) {
+                        next1 = best1;
+                        best1 = p;
+                    } else if (next1 < 0 || second[p] < second[next1]) {
+                        next1 = p;
+                    }
+                }
+            }
+            int a = -1;
+            int b = -1;
+            if (best0 >= 0 && best1 >= 0) {
+                if (best0 != best1) {
+                    a = best0;
+                    b = best1;
+                } else {
+                    double viaNext1 = next1 < 0 ? Double.POSITIVE_INFINITY : first[best0] + second[next1];
+                    double viaNext0 = next0 < 0 ? Double.POSITIVE_INFINITY : first[next0] + second[best1];
+                    if (viaNext1 <= viaNext0 && next1 >= 0) {
+                        a = best0;
+                        b = next1;
+                    } else if (next0 >= 0) {
+                        a = next0;
+                        b = best1;
+                    }
+                }
+            }
+            if (a >= 0 && b >= 0) {
+                // Both lines matched. Runner-up of a: a explains the second line, the first goes
+                // to the best peak other than a (the pair stays matched).
+                double aAlternative = second[a] + (a == best0 ? (next0 < 0 ? Double.POSITIVE_INFINITY : first[next0])
+                        : first[best0]);
+                double bAlternative = first[b] + (b == best1 ? (next1 < 0 ? Double.POSITIVE_INFINITY : second[next1])
+                        : second[best1]);
+                double optimum = first[a] + second[b];
+                write(results, order, a, minLine, aAlternative - optimum < logOdds);
+                write(results, order, b, maxLine, bAlternative - optimum < logOdds);
+                return;
+            }
+            // One match: the cheapest candidate of any peak; its runner-up is its other line.
+            int p = best0;
+            boolean onFirst = true;
+            if (best1 >= 0 && (best0 < 0 || second[best1] < first[best0])) {
+                p = best1;
+                onFirst = false;
+            }
+            double own = onFirst ? first[p] : second[p];
+            double other = onFirst ? second[p] : first[p];
+            write(results, order, p, onFirst ? minLine : maxLine, other - own < logOdds);
+        }
+
+        private void write(Results results, int[] order, int p, int j, boolean ambiguous) {
+            int k = peakOrder[p];
+            int i = order == null ? k : order[k];
+            results.used[j] = true;
+            results.linePlusOne[i] = ambiguous ? -(j + 1) : j + 1;
+        }
+
+        private int[] cheapestSingle = new int[16];
+
+        /**
+         * Among the peaks whose only candidate is the same ordinary line, only the cheapest can
+         * be in an optimal assignment, or in the best one with any peak barred from any line
+         * (swapping it for another such peak never costs more and keeps the count): the others'
+         * candidates are switched off, so that the solves see fewer peaks. Without blends only.
+         */
+        void pruneSingleCandidatePeaks() {
+            int span = maxLine - minLine + 1;
+            if (cheapestSingle.length < span) {
+                cheapestSingle = new int[Math.max(2 * cheapestSingle.length, span)];
+            }
+            Arrays.fill(cheapestSingle, 0, span, -1);
+            for (int p = 0; p < peaks; p++) {
+                if (start[p + 1] - start[p] == 1) {
+                    int q = start[p];
+                    int l = line[q] - minLine;
+                    int held = cheapestSingle[l];
+                    if (held < 0 || cost[q] < cost[held]) {
+                        if (held >= 0) {
+                            cost[held] = OFF;
+                        }
+                        cheapestSingle[l] = q;
+                    } else {
+                        cost[q] = OFF;
+                    }
+                }
+            }
         }
 
         /** Reads the positions and uncertainties of the component's peaks. */
@@ -717,11 +850,96 @@ public final class Identifier {
             return sum;
         }
 
+        private int[] optimal = new int[16];
+        private double[] savedCost = new double[64];
+
+        /** @return a copy of {@link #chosen} in a buffer reused between components */
+        int[] optimal() {
+            if (optimal.length < peaks) {
+                optimal = new int[2 * peaks];
+            }
+            System.arraycopy(chosen, 0, optimal, 0, peaks);
+            return optimal;
+        }
+
+        /** Lines a component may span for {@link #solveBySubsets}. */
+        static final int SUBSET_LINES = 4;
+
+        private double[] subsetCost = new double[0];
+        private int[] subsetChoice = new int[0];
+
+        /**
+         * The exact assignment of a component without blends whose lines span at most
+         * {@value #SUBSET_LINES} indices, by dynamic programming over the peaks and the set of
+         * lines already taken (common practice): O(peaks x 2^lines x candidates), for any costs.
+         */
+        private void solveBySubsets() {
+            int span = maxLine - minLine + 1;
+            int states = 1 << span;
+            int cells = (peaks + 1) * states;
+            if (subsetCost.length < cells) {
+                subsetCost = new double[2 * cells];
+                subsetChoice = new int[2 * cells];
+            }
+            // Row p holds the least cost of peaks 0..p-1 for each set of lines taken (+infinity
+            // when unreachable); row p+1 starts as row p (peak p unmatched), then each candidate
+            // of peak p relaxes the sets without its line.
+            double[] table = subsetCost;
+            int[] choice = subsetChoice;
+            table[0] = 0;
+            for (int mask = 1; mask < states; mask++) {
+                table[mask] = Double.POSITIVE_INFINITY;
+            }
+            for (int p = 0; p < peaks; p++) {
+                int from = p * states;
+                int to = from + states;
+                // (plain loops: the rows are a few elements long)
+                for (int mask = 0; mask < states; mask++) {
+                    table[to + mask] = table[from + mask];
+                    choice[to + mask] = -1;
+                }
+                for (int q = start[p]; q < start[p + 1]; q++) {
+                    if (cost[q] == OFF) {
+                        continue;
+                    }
+                    int bit = 1 << (line[q] - minLine);
+                    double value = cost[q] - UNMATCHED;
+                    for (int mask = 0; mask < states; mask++) {
+                        if ((mask & bit) == 0) {
+                            double candidate = table[from + mask] + value;
+                            if (candidate < table[to + (mask | bit)]) {
+                                table[to + (mask | bit)] = candidate;
+                                choice[to + (mask | bit)] = q;
+                            }
+                        }
+                    }
+                }
+            }
+            int last = peaks * states;
+            int mask = 0;
+            for (int m = 1; m < states; m++) {
+                if (table[last + m] < table[last + mask]) {
+                    mask = m;
+                }
+            }
+            for (int p = peaks; p > 0; p--) {
+                int q = choice[p * states + mask];
+                if (q < 0) {
+                    chosen[p - 1] = -1;
+                } else {
+                    chosen[p - 1] = line[q];
+                    mask &= ~(1 << (line[q] - minLine));
+                }
+            }
+        }
+
         private void solveOnce(boolean modified) {
-            if (!modified && peaks <= MAX_EXACT_COMPONENT && tolerance.kind() == Tolerance.Kind.ABSOLUTE) {
-                solveNonCrossing();
-            } else if (eachPeakBestDistinct()) {
+            if (eachPeakBestDistinct()) {
                 // Every peak matched to its own cheapest line: the most matches at the least cost.
+            } else if (blend == null && maxLine - minLine < SUBSET_LINES && peaks <= 64) {
+                solveBySubsets();
+            } else if (!modified && peaks <= MAX_EXACT_COMPONENT && tolerance.kind() == Tolerance.Kind.ABSOLUTE) {
+                solveNonCrossing();
             } else if (peaks <= MAX_EXACT_COMPONENT) {
                 solver.solve(this);
             } else {
@@ -768,19 +986,23 @@ public final class Identifier {
             }
             // Re-solve with p barred from j and kept matched (its other candidates made cheaper
             // by 2 UNMATCHED, more than any other peak's match is worth).
-            double[] saved = Arrays.copyOf(cost, size);
+            if (savedCost.length < size) {
+                savedCost = new double[2 * size];
+            }
+            System.arraycopy(cost, start[p], savedCost, start[p], start[p + 1] - start[p]);
             for (int q = start[p]; q < start[p + 1]; q++) {
                 cost[q] = line[q] == j ? OFF : cost[q] - 2 * UNMATCHED;
             }
             solve(true);
             double alternative = objective() + (this.chosen[p] >= 0 ? 2 * UNMATCHED : 0);
-            System.arraycopy(saved, 0, cost, 0, size);
+            System.arraycopy(savedCost, start[p], cost, start[p], start[p + 1] - start[p]);
             return alternative - optimum;
         }
 
         private boolean sharedWithOthers(int p, int j) {
             for (int r = 0; r < peaks; r++) {
-                if (r != p && candidate(r, j) >= 0) {
+                int q = r == p ? -1 : candidate(r, j);
+                if (q >= 0 && cost[q] != OFF) {
                     return true;
                 }
             }
