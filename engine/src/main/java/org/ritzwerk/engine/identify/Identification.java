@@ -367,7 +367,10 @@ public final class Identification {
             double length = (hi - lo) - excluded;
             density = counted == 0 ? 0 : length > 0 ? counted / length : Double.POSITIVE_INFINITY;
         }
-        return -Math.expm1(-density * 2 * h);
+        // (0 when the window is empty; a density that cannot be told from a single point counts
+        // as infinite, so chance explains everything there)
+        double rate = density * 2 * h;
+        return rate > 0 ? -Math.expm1(-rate) : 0;
     }
 
     private static double overlap(double a, double b, double lo, double hi) {
