@@ -75,7 +75,8 @@ final class IdentifyCommand implements Callable<Integer> {
 
     @Option(names = "--components",
             description = {"Use fine-structure components of --species lines instead of n -> n' multiplets",
-                "(a multiplet counts as a blend and may explain more than one peak)."})
+                "(a multiplet counts as a blend: it may explain more than one peak, but only peaks",
+                "within its fine-structure spread plus the tolerance of one another)."})
     boolean components;
 
     @Option(names = "--tolerance", paramLabel = "TOL",
