@@ -38,8 +38,9 @@ import picocli.CommandLine.Spec;
             "computed by the engine (--species) and line lists from the data sets or your files",
             "(--lines). Each peak gets at most one line and each line at most one peak, chosen",
             "together; optionally a Doppler velocity is found first. Prints every peak with its",
-            "line, residual and status, then unexplained peaks, missing strong lines and the",
-            "presence of each species."
+            "line, residual and status (ambiguous: another line has posterior odds within 20:1),",
+            "then unexplained peaks, missing strong lines and the presence of each species",
+            "weighed against the matches chance gives at the local peak density."
         },
         footer = {"", "Examples:",
             "  ritzwerk identify peaks.csv --species \"H I,He II\" --tolerance \"5 sigma\"",
@@ -75,7 +76,8 @@ final class IdentifyCommand implements Callable<Integer> {
 
     @Option(names = "--components",
             description = {"Use fine-structure components of --species lines instead of n -> n' multiplets",
-                "(a multiplet counts as a blend and may explain more than one peak)."})
+                "(a multiplet counts as a blend: it may explain more than one peak, but only peaks",
+                "within its fine-structure spread plus the tolerance of one another)."})
     boolean components;
 
     @Option(names = "--tolerance", paramLabel = "TOL",
@@ -321,6 +323,21 @@ final class IdentifyCommand implements Callable<Integer> {
         table.finish();
     }
 
+    /**
+     * One species' presence as the library computed it: matched lines beside the number chance
+     * would give, strong lines found beside chance, the chance probability and the presence.
+     */
+    static String presenceLine(Identification.SpeciesPresence presence) {
+        String head = String.format(Locale.ROOT, "%s: %d lines matched (%.3g by chance)",
+                presence.species().notation(), presence.matched(), presence.matchedByChance());
+        if (presence.strongInRange() == 0) {
+            return head + "; no strong line in range, presence not judged";
+        }
+        return head + String.format(Locale.ROOT, "; %d of %d strong lines in range found (%.3g by chance, "
+                + "chance probability %.2g); presence %.2f", presence.strongMatched(), presence.strongInRange(),
+                presence.strongByChance(), presence.chanceProbability(), presence.presence());
+    }
+
     private void write(PeakFiles.Peaks read, Identification result, LineCatalog lines, ShiftSearch.Fit fit,
             ShiftSearch.Fit offsetFit) {
         PrintWriter out = spec.commandLine().getOut();
@@ -379,10 +396,7 @@ final class IdentifyCommand implements Callable<Integer> {
             summary.println(text);
         }
         for (Identification.SpeciesPresence presence : result.speciesPresence()) {
-            summary.println(String.format(Locale.ROOT, "%s: %d lines matched; %d of %d strong lines in range found%s",
-                    presence.species().notation(), presence.matched(), presence.strongMatched(),
-                    presence.strongInRange(), presence.strongInRange() == 0 ? ""
-                            : String.format(Locale.ROOT, " (confidence %.2f)", presence.confidence())));
+            summary.println(presenceLine(presence));
         }
         summary.flush();
     }

@@ -15,6 +15,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.identify.Candidates;
+import org.ritzwerk.engine.identify.Identification;
 import org.ritzwerk.engine.identify.IdentificationSearch;
 import org.ritzwerk.engine.identify.Identifier;
 import org.ritzwerk.engine.identify.LineCatalog;
@@ -208,7 +209,9 @@ class IdentifyCommandTest {
         for (int i = 0; i < read.size(); i++) {
             JsonNode row = json.readTree(lines[i]);
             int j = report.identification().line(i);
-            assertEquals(j < 0 ? "unexplained" : "matched", row.get("status").asString(), lines[i]);
+            int status = report.identification().status(i);
+            assertEquals(status == Identification.UNEXPLAINED ? "unexplained"
+                    : status == Identification.AMBIGUOUS ? "ambiguous" : "matched", row.get("status").asString(), lines[i]);
             if (j >= 0) {
                 assertEquals(report.lines().label(j), row.get("transition").asString());
             }
@@ -216,5 +219,53 @@ class IdentifyCommandTest {
         String velocity = String.format(java.util.Locale.ROOT, "velocity %.3f",
                 report.velocity().orElseThrow().velocity() / 1e3);
         assertTrue(run.err().contains(velocity), velocity + " in " + run.err());
+        // The presence line is the library's record, printed.
+        Identification.SpeciesPresence presence = report.identification().speciesPresence().get(0);
+        assertTrue(run.err().contains(IdentifyCommand.presenceLine(presence)), run.err());
+        assertTrue(presence.presence() >= 0.9, presence.toString());
+    }
+
+    @Test
+    void presenceIsWeighedAgainstChance(@TempDir Path dir) throws IOException {
+        // The Balmer peaks of balmerPeaksInAirAreIdentified: H I strong lines found among sparse
+        // peaks (chance expects almost none), He II's strong line missing.
+        Path sparse = dir.resolve("sparse.csv");
+        Files.writeString(sparse, HEADER + "position,uncertainty\n410.174,0.003\n434.047,0.003\n486.135,0.003\n"
+                + "656.279,0.003\n700.000,0.003\n", StandardCharsets.UTF_8);
+        CliTest.Run real = CliTest.run("identify", sparse.toString(), "--species", "H I,He II");
+        assertEquals(0, real.code(), real.err());
+        java.util.regex.Matcher h = java.util.regex.Pattern.compile(
+                "H I: 4 lines matched \\(([0-9.e+-]+) by chance\\); 2 of 2 strong lines in range found \\(([0-9.e+-]+) by "
+                        + "chance, chance probability ([0-9.e+-]+)\\); presence ([0-9.]+)").matcher(real.out());
+        assertTrue(h.find(), real.out());
+        assertTrue(Double.parseDouble(h.group(1)) < 0.1 && Double.parseDouble(h.group(2)) < 0.01, h.group());
+        assertTrue(Double.parseDouble(h.group(4)) >= 0.9, h.group());
+        assertTrue(real.out().contains("He II: 0 lines matched"), real.out());
+        assertTrue(real.out().matches("(?s).*He II: .*; 0 of 1 strong lines in range found .*presence 0\\.00.*"),
+                real.out());
+        // 20,000 random peaks (seeded) over 400-700 nm with 3 pm uncertainties: about 86 % of the
+        // lines have a peak within 5 sigma by chance; no species may look present.
+        java.util.SplittableRandom random = new java.util.SplittableRandom(16L);
+        StringBuilder rows = new StringBuilder("position,uncertainty\n");
+        double[] positions = new double[20_000];
+        for (int i = 0; i < positions.length; i++) {
+            positions[i] = 400 + 300 * random.nextDouble();
+        }
+        java.util.Arrays.sort(positions);
+        for (double x : positions) {
+            rows.append(String.format(java.util.Locale.ROOT, "%.6f,0.003%n", x));
+        }
+        Path noise = dir.resolve("noise.csv");
+        Files.writeString(noise, HEADER + rows, StandardCharsets.UTF_8);
+        CliTest.Run random20k = CliTest.run("identify", noise.toString(), "--species", "H I,He II", "--format", "csv");
+        assertEquals(0, random20k.code(), random20k.err());
+        java.util.regex.Matcher p = java.util.regex.Pattern.compile("(H I|He II): .*presence ([0-9.]+)")
+                .matcher(random20k.err());
+        int species = 0;
+        while (p.find()) {
+            species++;
+            assertTrue(Double.parseDouble(p.group(2)) <= 0.1, p.group());
+        }
+        assertEquals(2, species, random20k.err());
     }
 }

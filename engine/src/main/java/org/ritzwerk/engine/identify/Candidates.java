@@ -128,7 +128,9 @@ public final class Candidates {
          * @param model      its level model
          * @param nMax       highest upper n
          * @param components true for fine-structure components, false for n -&gt; n' multiplets
-         *                   (entered as blends: one may explain each of its components' peaks)
+         *                   (entered as blends with the span of their fine-structure components:
+         *                   one may explain several peaks that lie within that span plus the
+         *                   tolerance of one another)
          * @return this builder
          */
         public Builder hydrogenLike(Species species, HydrogenLikeModel model, int nMax, boolean components) {
@@ -195,6 +197,20 @@ public final class Candidates {
             LineTable table = components ? generator.components(nMax, fromHz, toHz)
                     : generator.multiplets(nMax, fromHz, toHz);
             double ground = model.energy(1, 0, 1);
+            // Each multiplet's fine-structure spread: the span of its components' vacuum
+            // wavelengths (components looked up in a window 1 % wider, so that a multiplet near
+            // an edge keeps all of them).
+            Map<Long, double[]> spreads = new HashMap<>();
+            if (!components) {
+                LineTable parts = generator.components(nMax, fromHz / 1.01, toHz * 1.01);
+                for (int i = 0; i < parts.size(); i++) {
+                    double w = PhysicalConstants.C / parts.frequency(i);
+                    double[] span = spreads.computeIfAbsent(pair(parts.upperN(i), parts.lowerN(i)),
+                            k -> new double[] {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY});
+                    span[0] = Math.min(span[0], w);
+                    span[1] = Math.max(span[1], w);
+                }
+            }
             for (int i = 0; i < table.size(); i++) {
                 double strength = table.upperWeight(i) * table.einsteinA(i);
                 if (!Double.isNaN(excitationTemperature)) {
@@ -214,11 +230,16 @@ public final class Candidates {
                             model.energy(n, 0, 1) - ground, table.upperWeight(i), table.einsteinA(i),
                             table.frequency(i)));
                     // A multiplet blends its fine-structure components: it may explain each of
-                    // them where the instrument half-resolves them.
-                    b.addBlend(species, vacuum, 0, strength, label);
+                    // them where the instrument half-resolves them, within their spread.
+                    double[] span = spreads.get(pair(n, table.lowerN(i)));
+                    b.addBlend(species, vacuum, 0, strength, label, span == null ? 0 : span[1] - span[0]);
                 }
                 count++;
             }
+        }
+
+        private static long pair(int upperN, int lowerN) {
+            return (long) upperN << 32 | lowerN;
         }
 
         private void addLineList(LineCatalog.Builder b, LineList list) {

@@ -23,16 +23,47 @@ import java.util.Objects;
  * robustly (median and MAD) from the first pass's matches, weighted by v (default 1; 0 ignores
  * intensities). Lower is better.
  *
- * <p><b>Assignment.</b> Each peak explains at most one line and each line at most one peak. Peaks
- * that share candidate lines form a component; every component is solved exactly as a
- * minimum-cost assignment that first maximises the number of matched peaks (Hungarian method,
- * H. W. Kuhn, Naval Res. Logist. Q. 2, 83 (1955), with potentials), except that a component of
+ * <p><b>Assignment.</b> Each peak explains at most one line and each ordinary line at most one
+ * peak. Peaks that share candidate lines form a component; every component is solved exactly as
+ * a minimum-cost assignment that first maximises the number of matched peaks (Hungarian method,
+ * H. W. Kuhn, Naval Res. Logist. Q. 2, 83 (1955), with potentials; for an absolute tolerance a
+ * dynamic programme over the non-crossing assignments, see below), except that a component of
  * more than {@link #MAX_EXACT_COMPONENT} peaks falls back to a greedy choice by cost, counted in
- * {@link Identification#greedyComponents()}.
+ * {@link Identification#greedyComponents()}. Small components take exact shortcuts: one peak
+ * (its cheapest candidate), one line (its cheapest peak), two ordinary lines (the best pair of
+ * distinct peaks, O(peaks)), and, without blends, lines spanning at most six indices (dynamic
+ * programming over the set of lines taken, after dropping every peak whose only candidate line
+ * has a cheaper such peak, which no optimum needs).
  *
- * <p><b>Ambiguity.</b> A matched peak is ambiguous when another candidate's cost is within the
- * ambiguity margin (default 2, a likelihood ratio of e^2) of the chosen one and the two lines
- * are closer than two scoring uncertainties: the data cannot separate them.
+ * <p><b>Blends.</b> A declared blend (an unresolved multiplet) may explain several peaks, but
+ * only peaks it can explain together: the shortest and the longest of them, at x_a &lt;= x_b,
+ * must satisfy {@code x_b - x_a <= D + h(x_a; sigma_a, sigma_b)}, where D is the blend's
+ * spread (the span of its components' wavelengths, {@link LineCatalog#blendSpread}; 0 when not
+ * declared) and h the tolerance's half-width applied to the difference of two positions
+ * (absolute: the width; relative: the fraction times x_a; k-sigma:
+ * {@code k sqrt(sigma_a^2 + sigma_b^2)}). Peaks further apart than that would need two
+ * components further apart than the blend has, so the blend explains at most one group of
+ * them and the rest compete for the other candidates. A component whose optimum breaks the
+ * rule is solved again for each choice of the group's shortest peak a (the blend kept only for
+ * peaks within reach of a), and the best of these is taken (exact; past
+ * {@value Component#SOLVE_BUDGET} solves a component keeps each blend for the window of its
+ * cheapest peak instead and counts as greedy).
+ *
+ * <p><b>Ambiguity.</b> With the cost c as the negative log of likelihood times prior, the
+ * posterior probability of an assignment of the component is proportional to exp(-sum c)
+ * (Bayes' rule; the Gaussian normalisation 1/s is left out, exact when a peak's candidates
+ * share the scoring uncertainty, as under absolute and relative tolerances). A matched peak's
+ * odds are those of the optimal assignment against the best assignment with as many matched
+ * peaks in which the peak explains a different line: {@code odds = exp(C_runner-up - C_best)}.
+ * The peak is ambiguous when the odds are below the threshold (default
+ * {@value #DEFAULT_AMBIGUITY_ODDS} to 1, {@link #withAmbiguityOdds}): an unflagged peak's
+ * line is at least 20 times as probable as its runner-up, when the strengths are fair priors
+ * (on seeded crowded scenes, IdentificationRulesTest, under 1 % of unflagged peaks are wrong). A peak alone in its component compares its two cheapest
+ * candidates; otherwise the component is solved again with the peak barred from its line,
+ * except where a bound settles it (no other peak wants the line: the alternative costs at
+ * least the peak's own cost difference). A peak that has no other candidate is never
+ * ambiguous; which of several peaks a line belongs to is not ambiguity (the others are left
+ * unexplained).
  *
  * <p>Immutable and thread-safe; no object is made per peak or candidate.
  */
@@ -41,45 +72,60 @@ public final class Identifier {
     /** Components with more peaks than this are assigned greedily. */
     public static final int MAX_EXACT_COMPONENT = 300;
 
+    /** The default posterior odds below which a matched peak is ambiguous: 20 to 1. */
+    public static final double DEFAULT_AMBIGUITY_ODDS = 20;
+
     /** The cost of leaving a peak unmatched: above any real cost (at most a few hundred), small
      *  enough that the potentials keep their precision. */
     private static final double UNMATCHED = 1e6;
 
     private final Tolerance tolerance;
     private final double strengthWeight;
-    private final double ambiguityMargin;
+    /** ln of the ambiguity odds. */
+    private final double logOdds;
     private final double strongLine;
 
     private final double intensityWeight;
 
-    private Identifier(Tolerance tolerance, double strengthWeight, double ambiguityMargin, double strongLine,
+    private Identifier(Tolerance tolerance, double strengthWeight, double logOdds, double strongLine,
             double intensityWeight) {
         this.tolerance = Objects.requireNonNull(tolerance, "tolerance");
         this.strengthWeight = strengthWeight;
-        this.ambiguityMargin = ambiguityMargin;
+        this.logOdds = logOdds;
         this.strongLine = strongLine;
         this.intensityWeight = intensityWeight;
     }
 
     /**
      * @param tolerance how far a peak may lie from its line
-     * @return an identifier with strength weight 1, ambiguity margin 2 and strong lines those
-     *         with relative strength at least 0.3
+     * @return an identifier with strength weight 1, intensity weight 1, ambiguity odds 20 to 1
+     *         and strong lines those with relative strength at least 0.3
      */
     public static Identifier of(Tolerance tolerance) {
-        return new Identifier(tolerance, 1, 2, 0.3, 1);
+        return new Identifier(tolerance, 1, Math.log(DEFAULT_AMBIGUITY_ODDS), 0.3, 1);
     }
 
     /** @param weight w in the cost, finite and >= 0 @return a copy with that weight */
     public Identifier withStrengthWeight(double weight) {
         check("strength weight", weight);
-        return new Identifier(tolerance, weight, ambiguityMargin, strongLine, intensityWeight);
+        return new Identifier(tolerance, weight, logOdds, strongLine, intensityWeight);
     }
 
-    /** @param margin cost difference below which two close candidates are ambiguous, >= 0 @return a copy */
-    public Identifier withAmbiguityMargin(double margin) {
-        check("ambiguity margin", margin);
-        return new Identifier(tolerance, strengthWeight, margin, strongLine, intensityWeight);
+    /**
+     * @param odds posterior odds of a peak's assignment against its runner-up below which the
+     *             peak is ambiguous; finite and at least 1 (1 flags only exact ties)
+     * @return a copy with that threshold
+     */
+    public Identifier withAmbiguityOdds(double odds) {
+        if (!(odds >= 1) || Double.isInfinite(odds)) {
+            throw new IllegalArgumentException("ambiguity odds must be finite and >= 1, got " + odds);
+        }
+        return new Identifier(tolerance, strengthWeight, Math.log(odds), strongLine, intensityWeight);
+    }
+
+    /** @return the posterior odds below which a matched peak is ambiguous */
+    public double ambiguityOdds() {
+        return Math.exp(logOdds);
     }
 
     /** @param threshold relative strength from which a line counts as strong, in (0, 1] @return a copy */
@@ -87,7 +133,7 @@ public final class Identifier {
         if (!(threshold > 0 && threshold <= 1)) {
             throw new IllegalArgumentException("strong-line threshold must be in (0, 1], got " + threshold);
         }
-        return new Identifier(tolerance, strengthWeight, ambiguityMargin, threshold, intensityWeight);
+        return new Identifier(tolerance, strengthWeight, logOdds, threshold, intensityWeight);
     }
 
     /**
@@ -97,7 +143,7 @@ public final class Identifier {
      */
     public Identifier withIntensityWeight(double weight) {
         check("intensity weight", weight);
-        return new Identifier(tolerance, strengthWeight, ambiguityMargin, strongLine, weight);
+        return new Identifier(tolerance, strengthWeight, logOdds, strongLine, weight);
     }
 
     private static void check(String what, double value) {
@@ -137,7 +183,7 @@ public final class Identifier {
             results = new Results(peaks.size(), lines.size());
             run(peaks, lines, order, results, 0, peaks.size(), term);
         }
-        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used,
+        return new Identification(peaks, lines, results.linePlusOne, results.used,
                 results.greedy.get(), strongLine, tolerance, strengthWeight, term);
     }
 
@@ -161,7 +207,7 @@ public final class Identifier {
         }
 
         static IntensityTerm from(PeakList peaks, LineCatalog lines, int[] linePlusOne, double weight) {
-            if (weight == 0) {
+            if (weight == 0 || Double.isNaN(peaks.intensity(0))) {
                 return NONE;
             }
             double[] differences = new double[peaks.size()];
@@ -237,7 +283,7 @@ public final class Identifier {
             java.util.stream.IntStream.range(0, cuts.size() - 1).parallel()
                     .forEach(c -> run(peaks, lines, order, results, cuts.get(c), cuts.get(c + 1), term));
         }
-        return new Identification(peaks, lines, results.status, results.linePlusOne, results.used,
+        return new Identification(peaks, lines, results.linePlusOne, results.used,
                 results.greedy.get(), strongLine, tolerance, strengthWeight, term);
     }
 
@@ -259,7 +305,7 @@ public final class Identifier {
         double[] pw = peaks.wavelengths();
         double[] ps = peaks.sigmas();
         double[] lw = lines.wavelengths();
-        Component component = new Component(lines.blends());
+        Component component = new Component(lines.blends(), lines.blendSpreads(), tolerance);
         double[] penalty = lines.negativeLogStrengths();
         boolean exactReach = tolerance.kind() != Tolerance.Kind.K_SIGMA;
         int lo = 0;
@@ -310,7 +356,7 @@ public final class Identifier {
                 if (firstLine < 0) {
                     firstLine = j;
                     if (component.peaks > 0 && j > component.maxLine) {
-                        finish(component, results, pw, ps, lines, order);
+                        finish(component, results, pw, ps, order);
                         before = 0;
                     }
                 }
@@ -324,7 +370,7 @@ public final class Identifier {
             // side of it may still share a line; its result is the default, unexplained.
         }
         if (component.peaks > 0) {
-            finish(component, results, pw, ps, lines, order);
+            finish(component, results, pw, ps, order);
         }
         return true;
     }
@@ -345,73 +391,89 @@ public final class Identifier {
     }
 
     /** Solves the buffered component, writes its peaks' results and empties the buffer. */
-    private void finish(Component c, Results results, double[] pw, double[] ps, LineCatalog lines, int[] order) {
-        if (c.peaks == 1 && c.size == 1) {
-            // The common case: one peak, one candidate, nothing to weigh.
+    private void finish(Component c, Results results, double[] pw, double[] ps, int[] order) {
+        if (c.peaks == 1) {
+            // One peak: its cheapest candidate; the posterior odds against the runner-up are
+            // exp(cost difference).
             int k = c.peakOrder[0];
             int i = order == null ? k : order[k];
-            int j = c.line[0];
+            int best = 0;
+            for (int q = 1; q < c.size; q++) {
+                if (c.cost[q] < c.cost[best]) {
+                    best = q;
+                }
+            }
+            double second = Double.POSITIVE_INFINITY;
+            for (int q = 0; q < c.size; q++) {
+                if (q != best) {
+                    second = Math.min(second, c.cost[q]);
+                }
+            }
+            int j = c.line[best];
             results.used[j] = true;
-            results.linePlusOne[i] = j + 1;
-            results.status[i] = Identification.MATCHED;
+            results.linePlusOne[i] = second - c.cost[best] < logOdds ? -(j + 1) : j + 1;
             c.clear();
             return;
         }
-        if (c.peaks == 1) {
-            c.cheapestForTheOnlyPeak();
-        } else if (c.peaks <= MAX_EXACT_COMPONENT && tolerance.kind() == Tolerance.Kind.ABSOLUTE) {
-            c.solveNonCrossing();
-        } else if (c.eachPeakBestDistinct()) {
-            // Every peak matched to its own cheapest line: the most matches at the least cost.
-        } else if (c.peaks <= MAX_EXACT_COMPONENT) {
-            c.solveExactly();
-        } else {
-            results.greedy.incrementAndGet();
-            c.solveGreedily();
+        if (c.minLine == c.maxLine && !c.isBlend(c.minLine)) {
+            // One ordinary line wanted by several peaks: the cheapest peak takes it. No peak has
+            // another line to turn to, so the one matched is not ambiguous between lines.
+            int best = 0;
+            for (int q = 1; q < c.size; q++) {
+                if (c.cost[q] < c.cost[best]) {
+                    best = q;
+                }
+            }
+            int k = c.peakOrder[c.peakOf(best)];
+            int i = order == null ? k : order[k];
+            results.used[c.minLine] = true;
+            results.linePlusOne[i] = c.minLine + 1;
+            c.clear();
+            return;
         }
-        double[] lw = lines.wavelengths();
+        if (c.blend == null && c.maxLine == c.minLine + 1) {
+            c.twoLines(results, order, logOdds);
+            c.clear();
+            return;
+        }
+        if (c.blend != null) {
+            c.prepare(pw, ps, order);
+        } else {
+            c.pruneSingleCandidatePeaks();
+        }
+        c.solves = 0;
+        c.inexact = false;
+        c.solve(false);
+        if (c.inexact) {
+            results.greedy.incrementAndGet();
+        }
+        double optimum = c.objective();
+        int[] chosen = c.optimal();
         for (int p = 0; p < c.peaks; p++) {
             int k = c.peakOrder[p];
             int i = order == null ? k : order[k];
-            int j = c.chosen[p];
+            int j = chosen[p];
             if (j < 0) {
-                results.unexplained(i);
                 continue;
             }
             results.used[j] = true;
-            results.linePlusOne[i] = j + 1;
-            double chosenCost = Double.POSITIVE_INFINITY;
-            for (int q = c.start[p]; q < c.start[p + 1]; q++) {
-                if (c.line[q] == j) {
-                    chosenCost = c.cost[q];
-                }
-            }
-            double s = tolerance.scoringSigma(pw[i], ps[i], lines.sigma(j));
-            byte status = Identification.MATCHED;
-            for (int q = c.start[p]; q < c.start[p + 1]; q++) {
-                int other = c.line[q];
-                if (other != j && c.cost[q] - chosenCost < ambiguityMargin && Math.abs(lw[other] - lw[j]) < 2 * s) {
-                    status = Identification.AMBIGUOUS;
-                }
-            }
-            results.status[i] = status;
+            results.linePlusOne[i] = c.logOddsAgainstRunnerUp(p, j, chosen, optimum, logOdds) < logOdds
+                    ? -(j + 1) : j + 1;
         }
         c.clear();
     }
 
     /**
-     * The output columns, in the peaks' order: five bytes a peak, and nothing written for an
-     * unexplained peak (status 0, line stored plus one so that 0 means none). Residuals, costs
-     * and runners-up are derived on request.
+     * The output columns, in the peaks' order: four bytes a peak, and nothing written for an
+     * unexplained peak: the line plus one (0 for none), negative when the match is ambiguous.
+     * Residuals, costs and runners-up are derived on request.
      */
     private static final class Results {
-        final byte[] status;
         final int[] linePlusOne;
         final boolean[] used;
         final java.util.concurrent.atomic.AtomicInteger greedy = new java.util.concurrent.atomic.AtomicInteger();
 
         Results(int n, int m) {
-            status = new byte[n];
             linePlusOne = new int[n];
             used = new boolean[m];
         }
@@ -423,17 +485,28 @@ public final class Identifier {
 
     /**
      * The peaks of one component and their candidates, reused from one component to the next:
-     * candidates of the p-th peak are {@code line/cost[start[p] .. start[p+1])}.
+     * candidates of the p-th peak are {@code line/cost[start[p] .. start[p+1])}. A candidate is
+     * switched off for a re-solve by setting its cost to {@link #OFF}.
      */
     private static final class Component {
-        /** The catalog's blend flags, or null when there is no blend. */
-        private final boolean[] blend;
+        /** The cost of a candidate that a re-solve may not use. */
+        static final double OFF = Double.POSITIVE_INFINITY;
+        /** Re-solves allowed per component for the blend rule before it falls back to a greedy repair. */
+        static final int SOLVE_BUDGET = 256;
 
-        Component(boolean[] blend) {
+        /** The catalog's blend flags, or null when there is no blend. */
+        final boolean[] blend;
+        /** The catalog's blend spreads, metres. */
+        private final double[] spread;
+        private final Tolerance tolerance;
+
+        Component(boolean[] blend, double[] spread, Tolerance tolerance) {
             this.blend = blend;
+            this.spread = spread;
+            this.tolerance = tolerance;
         }
 
-        private boolean isBlend(int j) {
+        boolean isBlend(int j) {
             return blend != null && blend[j];
         }
 
@@ -467,9 +540,15 @@ public final class Identifier {
         int[] chosen = new int[16];
         int[] line = new int[64];
         double[] cost = new double[64];
+        /** Position and uncertainty of each peak of the component (metres), set by {@link #prepare}. */
+        double[] x = new double[16];
+        double[] sigma = new double[16];
         int peaks;
         int size;
         int maxLine = -1;
+        int minLine = Integer.MAX_VALUE;
+        int solves;
+        boolean inexact;
         private final Assignment solver = new Assignment();
 
         void addCandidate(int j, double c) {
@@ -481,6 +560,7 @@ public final class Identifier {
             cost[size] = c;
             size++;
             maxLine = Math.max(maxLine, j);
+            minLine = Math.min(minLine, j);
         }
 
         /** Ends the candidates of the peak at sorted position k, whose first candidate is at {@code from}. */
@@ -500,18 +580,442 @@ public final class Identifier {
             peaks = 0;
             size = 0;
             maxLine = -1;
+            minLine = Integer.MAX_VALUE;
         }
 
-        void cheapestForTheOnlyPeak() {
-            int best = -1;
-            double bestCost = Double.POSITIVE_INFINITY;
-            for (int q = 0; q < size; q++) {
-                if (cost[q] < bestCost) {
-                    bestCost = cost[q];
-                    best = line[q];
+        private double[] first = new double[16];
+        private double[] second = new double[16];
+
+        /**
+         * The exact assignment and posterior odds of a component of two ordinary lines, in
+         * O(peaks): with two or more peaks able to take them, the best pair of distinct peaks;
+         * else the cheapest single match. A matched peak's runner-up explains the other line,
+         * its own line going to the best other peak when the pair must stay matched.
+         */
+        void twoLines(Results results, int[] order, double logOdds) {
+            if (first.length < peaks) {
+                first = new double[2 * peaks];
+                second = new double[2 * peaks];
+            }
+            int best0 = -1;
+            int next0 = -1;
+            int best1 = -1;
+            int next1 = -1;
+            for (int p = 0; p < peaks; p++) {
+                first[p] = Double.POSITIVE_INFINITY;
+                second[p] = Double.POSITIVE_INFINITY;
+                for (int q = start[p]; q < start[p + 1]; q++) {
+                    if (line[q] == minLine) {
+                        first[p] = cost[q];
+                    } else {
+                        second[p] = cost[q];
+                    }
+                }
+                if (first[p] < Double.POSITIVE_INFINITY) {
+                    if (best0 < 0 || first[p] < first[best0]) {
+                        next0 = best0;
+                        best0 = p;
+                    } else if (next0 < 0 || first[p] < first[next0]) {
+                        next0 = p;
+                    }
+                }
+                if (second[p] < Double.POSITIVE_INFINITY) {
+                    if (best1 < 0 || second[p] < second[best1]) {
+                        next1 = best1;
+                        best1 = p;
+                    } else if (next1 < 0 || second[p] < second[next1]) {
+                        next1 = p;
+                    }
                 }
             }
-            chosen[0] = best;
+            int a = -1;
+            int b = -1;
+            if (best0 >= 0 && best1 >= 0) {
+                if (best0 != best1) {
+                    a = best0;
+                    b = best1;
+                } else {
+                    double viaNext1 = next1 < 0 ? Double.POSITIVE_INFINITY : first[best0] + second[next1];
+                    double viaNext0 = next0 < 0 ? Double.POSITIVE_INFINITY : first[next0] + second[best1];
+                    if (viaNext1 <= viaNext0 && next1 >= 0) {
+                        a = best0;
+                        b = next1;
+                    } else if (next0 >= 0) {
+                        a = next0;
+                        b = best1;
+                    }
+                }
+            }
+            if (a >= 0 && b >= 0) {
+                // Both lines matched. Runner-up of a: a explains the second line, the first goes
+                // to the best peak other than a (the pair stays matched).
+                double aAlternative = second[a] + (a == best0 ? (next0 < 0 ? Double.POSITIVE_INFINITY : first[next0])
+                        : first[best0]);
+                double bAlternative = first[b] + (b == best1 ? (next1 < 0 ? Double.POSITIVE_INFINITY : second[next1])
+                        : second[best1]);
+                double optimum = first[a] + second[b];
+                write(results, order, a, minLine, aAlternative - optimum < logOdds);
+                write(results, order, b, maxLine, bAlternative - optimum < logOdds);
+                return;
+            }
+            // One match: the cheapest candidate of any peak; its runner-up is its other line.
+            int p = best0;
+            boolean onFirst = true;
+            if (best1 >= 0 && (best0 < 0 || second[best1] < first[best0])) {
+                p = best1;
+                onFirst = false;
+            }
+            double own = onFirst ? first[p] : second[p];
+            double other = onFirst ? second[p] : first[p];
+            write(results, order, p, onFirst ? minLine : maxLine, other - own < logOdds);
+        }
+
+        private void write(Results results, int[] order, int p, int j, boolean ambiguous) {
+            int k = peakOrder[p];
+            int i = order == null ? k : order[k];
+            results.used[j] = true;
+            results.linePlusOne[i] = ambiguous ? -(j + 1) : j + 1;
+        }
+
+        private int[] cheapestSingle = new int[16];
+
+        /**
+         * Among the peaks whose only candidate is the same ordinary line, only the cheapest can
+         * be in an optimal assignment, or in the best one with any peak barred from any line
+         * (swapping it for another such peak never costs more and keeps the count): the others'
+         * candidates are switched off, so that the solves see fewer peaks. Without blends only.
+         */
+        void pruneSingleCandidatePeaks() {
+            int span = maxLine - minLine + 1;
+            if (cheapestSingle.length < span) {
+                cheapestSingle = new int[Math.max(2 * cheapestSingle.length, span)];
+            }
+            Arrays.fill(cheapestSingle, 0, span, -1);
+            for (int p = 0; p < peaks; p++) {
+                if (start[p + 1] - start[p] == 1) {
+                    int q = start[p];
+                    int l = line[q] - minLine;
+                    int held = cheapestSingle[l];
+                    if (held < 0 || cost[q] < cost[held]) {
+                        if (held >= 0) {
+                            cost[held] = OFF;
+                        }
+                        cheapestSingle[l] = q;
+                    } else {
+                        cost[q] = OFF;
+                    }
+                }
+            }
+        }
+
+        /** Reads the positions and uncertainties of the component's peaks. */
+        void prepare(double[] pw, double[] ps, int[] order) {
+            if (x.length < peaks) {
+                x = new double[2 * peaks];
+                sigma = new double[2 * peaks];
+            }
+            for (int p = 0; p < peaks; p++) {
+                int i = order == null ? peakOrder[p] : order[peakOrder[p]];
+                x[p] = pw[i];
+                sigma[p] = ps[i];
+            }
+        }
+
+        /**
+         * Solves the component into {@link #chosen}: the most matches at the least cost, with no
+         * blend given peaks it cannot explain together.
+         *
+         * @param modified whether some costs were changed (switched off or lowered), which rules
+         *                 out the non-crossing shortcut
+         */
+        void solve(boolean modified) {
+            solveOnce(modified);
+            if (blend == null) {
+                return;
+            }
+            int b = violatedBlend();
+            if (b < 0) {
+                return;
+            }
+            if (solves >= SOLVE_BUDGET) {
+                repairGreedily();
+                return;
+            }
+            // Branch: the peaks that blend b explains together have some shortest peak a, and
+            // all of them lie within b's reach of it. Try every a, keep the best.
+            double bestObjective = Double.POSITIVE_INFINITY;
+            int[] best = null;
+            double[] saved = Arrays.copyOf(cost, size);
+            for (int a = 0; a < peaks; a++) {
+                if (candidate(a, b) < 0) {
+                    continue;
+                }
+                int off = 0;
+                for (int p = 0; p < peaks; p++) {
+                    int q = candidate(p, b);
+                    if (q >= 0 && cost[q] != OFF && !(p >= a && together(b, a, p))) {
+                        cost[q] = OFF;
+                        off++;
+                    }
+                }
+                if (off > 0) {
+                    solves++;
+                    solve(true);
+                    double objective = objective();
+                    if (objective < bestObjective) {
+                        bestObjective = objective;
+                        best = Arrays.copyOf(chosen, peaks);
+                    }
+                }
+                System.arraycopy(saved, 0, cost, 0, size);
+            }
+            if (best == null) {
+                repairGreedily();
+            } else {
+                System.arraycopy(best, 0, chosen, 0, peaks);
+            }
+        }
+
+        /** Past the budget: keep each overfull blend for the window of its cheapest peak, then re-solve. */
+        private void repairGreedily() {
+            inexact = true;
+            double[] saved = Arrays.copyOf(cost, size);
+            for (int b = violatedBlend(); b >= 0; b = violatedBlend()) {
+                int a = -1;
+                for (int p = 0; p < peaks; p++) {
+                    if (chosen[p] == b && (a < 0 || cost[candidate(p, b)] < cost[candidate(a, b)])) {
+                        a = p;
+                    }
+                }
+                int off = 0;
+                for (int p = 0; p < peaks; p++) {
+                    int q = candidate(p, b);
+                    if (q >= 0 && cost[q] != OFF && !(p == a || together(b, Math.min(a, p), Math.max(a, p)))) {
+                        cost[q] = OFF;
+                        off++;
+                    }
+                }
+                if (off == 0) {
+                    break; // cannot happen: the violating pair includes a peak away from a
+                }
+                solveOnce(true);
+            }
+            System.arraycopy(saved, 0, cost, 0, size);
+        }
+
+        /**
+         * @return whether blend b can explain peaks p &lt;= r together: their separation is at
+         *         most b's spread plus the tolerance of a difference of two positions
+         */
+        private boolean together(int b, int p, int r) {
+            return x[r] - x[p] <= spread[b] + tolerance.halfWidth(x[p], sigma[p], sigma[r]);
+        }
+
+        /** @return a blend whose shortest and longest peaks it cannot explain together, or -1 */
+        private int violatedBlend() {
+            for (int p = 0; p < peaks; p++) {
+                int b = chosen[p];
+                if (b < 0 || !isBlend(b)) {
+                    continue;
+                }
+                int last = p;
+                for (int r = p + 1; r < peaks; r++) {
+                    last = chosen[r] == b ? r : last;
+                }
+                if (last > p && !together(b, p, last)) {
+                    return b;
+                }
+            }
+            return -1;
+        }
+
+        /** @return the candidate index of line j for peak p, or -1 */
+        int candidate(int p, int j) {
+            for (int q = start[p]; q < start[p + 1]; q++) {
+                if (line[q] == j) {
+                    return q;
+                }
+            }
+            return -1;
+        }
+
+        /** @return the sum over matched peaks of (cost - UNMATCHED) under the current costs */
+        double objective() {
+            double sum = 0;
+            for (int p = 0; p < peaks; p++) {
+                if (chosen[p] >= 0) {
+                    sum += cost[candidate(p, chosen[p])] - UNMATCHED;
+                }
+            }
+            return sum;
+        }
+
+        private int[] optimal = new int[16];
+        private double[] savedCost = new double[64];
+
+        /** @return a copy of {@link #chosen} in a buffer reused between components */
+        int[] optimal() {
+            if (optimal.length < peaks) {
+                optimal = new int[2 * peaks];
+            }
+            System.arraycopy(chosen, 0, optimal, 0, peaks);
+            return optimal;
+        }
+
+        /** Lines a component may span for {@link #solveBySubsets}. */
+        static final int SUBSET_LINES = 4;
+
+        private double[] subsetCost = new double[0];
+        private int[] subsetChoice = new int[0];
+
+        /**
+         * The exact assignment of a component without blends whose lines span at most
+         * {@value #SUBSET_LINES} indices, by dynamic programming over the peaks and the set of
+         * lines already taken (common practice): O(peaks x 2^lines x candidates), for any costs.
+         */
+        private void solveBySubsets() {
+            int span = maxLine - minLine + 1;
+            int states = 1 << span;
+            int cells = (peaks + 1) * states;
+            if (subsetCost.length < cells) {
+                subsetCost = new double[2 * cells];
+                subsetChoice = new int[2 * cells];
+            }
+            // Row p holds the least cost of peaks 0..p-1 for each set of lines taken (+infinity
+            // when unreachable); row p+1 starts as row p (peak p unmatched), then each candidate
+            // of peak p relaxes the sets without its line.
+            double[] table = subsetCost;
+            int[] choice = subsetChoice;
+            table[0] = 0;
+            for (int mask = 1; mask < states; mask++) {
+                table[mask] = Double.POSITIVE_INFINITY;
+            }
+            for (int p = 0; p < peaks; p++) {
+                int from = p * states;
+                int to = from + states;
+                // (plain loops: the rows are a few elements long)
+                for (int mask = 0; mask < states; mask++) {
+                    table[to + mask] = table[from + mask];
+                    choice[to + mask] = -1;
+                }
+                for (int q = start[p]; q < start[p + 1]; q++) {
+                    if (cost[q] == OFF) {
+                        continue;
+                    }
+                    int bit = 1 << (line[q] - minLine);
+                    double value = cost[q] - UNMATCHED;
+                    for (int mask = 0; mask < states; mask++) {
+                        if ((mask & bit) == 0) {
+                            double candidate = table[from + mask] + value;
+                            if (candidate < table[to + (mask | bit)]) {
+                                table[to + (mask | bit)] = candidate;
+                                choice[to + (mask | bit)] = q;
+                            }
+                        }
+                    }
+                }
+            }
+            int last = peaks * states;
+            int mask = 0;
+            for (int m = 1; m < states; m++) {
+                if (table[last + m] < table[last + mask]) {
+                    mask = m;
+                }
+            }
+            for (int p = peaks; p > 0; p--) {
+                int q = choice[p * states + mask];
+                if (q < 0) {
+                    chosen[p - 1] = -1;
+                } else {
+                    chosen[p - 1] = line[q];
+                    mask &= ~(1 << (line[q] - minLine));
+                }
+            }
+        }
+
+        private void solveOnce(boolean modified) {
+            if (eachPeakBestDistinct()) {
+                // Every peak matched to its own cheapest line: the most matches at the least cost.
+            } else if (blend == null && maxLine - minLine < SUBSET_LINES && peaks <= 64) {
+                solveBySubsets();
+            } else if (!modified && peaks <= MAX_EXACT_COMPONENT && tolerance.kind() == Tolerance.Kind.ABSOLUTE) {
+                solveNonCrossing();
+            } else if (peaks <= MAX_EXACT_COMPONENT) {
+                solver.solve(this);
+            } else {
+                inexact = true;
+                solveGreedily();
+            }
+        }
+
+        /**
+         * The log posterior odds of peak p's assignment to line j against the best assignment
+         * of the component in which p explains another line (ln of the ratio of the two
+         * assignments' likelihood-times-prior products, i.e. their cost difference).
+         *
+         * @param chosen  the optimal assignment
+         * @param optimum its objective
+         * @param enough  log odds above which the exact value is not needed
+         * @return the log odds, +infinity when p has no other line it could explain with as many
+         *         peaks matched
+         */
+        double logOddsAgainstRunnerUp(int p, int j, int[] chosen, double optimum, double enough) {
+            double local = Double.POSITIVE_INFINITY;
+            int localLine = -1;
+            double own = cost[candidate(p, j)];
+            boolean anyBlend = isBlend(j);
+            for (int q = start[p]; q < start[p + 1]; q++) {
+                if (line[q] != j) {
+                    anyBlend |= isBlend(line[q]);
+                    if (cost[q] - own < local) {
+                        local = cost[q] - own;
+                        localLine = line[q];
+                    }
+                }
+            }
+            if (localLine < 0) {
+                return Double.POSITIVE_INFINITY;
+            }
+            if (!anyBlend && !sharedWithOthers(p, j)) {
+                // Nobody else wants j, so moving p to another line j' cannot help the others:
+                // every alternative costs at least its own difference, and exactly that when j'
+                // was free.
+                if (local >= enough || !usedByOthers(localLine, p, chosen)) {
+                    return local;
+                }
+            }
+            // Re-solve with p barred from j and kept matched (its other candidates made cheaper
+            // by 2 UNMATCHED, more than any other peak's match is worth).
+            if (savedCost.length < size) {
+                savedCost = new double[2 * size];
+            }
+            System.arraycopy(cost, start[p], savedCost, start[p], start[p + 1] - start[p]);
+            for (int q = start[p]; q < start[p + 1]; q++) {
+                cost[q] = line[q] == j ? OFF : cost[q] - 2 * UNMATCHED;
+            }
+            solve(true);
+            double alternative = objective() + (this.chosen[p] >= 0 ? 2 * UNMATCHED : 0);
+            System.arraycopy(savedCost, start[p], cost, start[p], start[p + 1] - start[p]);
+            return alternative - optimum;
+        }
+
+        private boolean sharedWithOthers(int p, int j) {
+            for (int r = 0; r < peaks; r++) {
+                int q = r == p ? -1 : candidate(r, j);
+                if (q >= 0 && cost[q] != OFF) {
+                    return true;
+                }
+            }
+            return false;
+        }
+
+        private boolean usedByOthers(int j, int p, int[] chosen) {
+            for (int r = 0; r < peaks; r++) {
+                if (r != p && chosen[r] == j) {
+                    return true;
+                }
+            }
+            return false;
         }
 
         /**
@@ -531,20 +1035,14 @@ public final class Identifier {
                 }
                 chosen[p] = best;
             }
-            // Candidates come in line order, so a repeated best line shows up among neighbours
-            // only when it is shared; compare every pair for the small components that remain.
             for (int p = 0; p < peaks; p++) {
                 for (int r = p + 1; r < peaks; r++) {
-                    if (chosen[p] == chosen[r] && !isBlend(chosen[p])) {
+                    if (chosen[p] >= 0 && chosen[p] == chosen[r] && !isBlend(chosen[p])) {
                         return false;
                     }
                 }
             }
             return true;
-        }
-
-        void solveExactly() {
-            solver.solve(this);
         }
 
         private double[] table = new double[0];
@@ -557,10 +1055,7 @@ public final class Identifier {
          * O(peaks x lines) (A. J. Hoffman, Proc. Symp. Pure Math. 7, 317 (1963); common practice).
          */
         void solveNonCrossing() {
-            int lineMin = Integer.MAX_VALUE;
-            for (int q = 0; q < size; q++) {
-                lineMin = Math.min(lineMin, line[q]);
-            }
+            int lineMin = minLine;
             int lines = maxLine - lineMin + 1;
             int width = lines + 1;
             if (table.length < (peaks + 1) * width) {
@@ -569,7 +1064,8 @@ public final class Identifier {
             // table[p][l]: least cost of the first p peaks and first l lines, a match costing
             // (its cost - UNMATCHED) so that more matches always win. Blended lines may serve
             // any number of peaks, so they are no column here: a peak that takes none of the
-            // ordinary lines takes its cheapest blend, if it has one (the "skip" cost).
+            // ordinary lines takes its cheapest blend, if it has one (the "skip" cost); the
+            // blend rule is checked afterwards.
             cheapestBlends();
             for (int l = 0; l <= lines; l++) {
                 table[l] = 0;
@@ -622,13 +1118,13 @@ public final class Identifier {
             java.util.Set<Integer> taken = new java.util.HashSet<>();
             for (int q : byCost) {
                 int p = peakOf(q);
-                if (chosen[p] < 0 && (isBlend(line[q]) || taken.add(line[q]))) {
+                if (cost[q] != OFF && chosen[p] < 0 && (isBlend(line[q]) || taken.add(line[q]))) {
                     chosen[p] = line[q];
                 }
             }
         }
 
-        private int peakOf(int candidate) {
+        int peakOf(int candidate) {
             int lo = 0;
             int hi = peaks - 1;
             while (lo < hi) {
@@ -679,8 +1175,8 @@ public final class Identifier {
 
     @Override
     public String toString() {
-        return String.format(Locale.ROOT, "Identifier[%s %s, w=%s, margin=%s]", tolerance.kind(), tolerance.value(),
-                strengthWeight, ambiguityMargin);
+        return String.format(Locale.ROOT, "Identifier[%s %s, w=%s, odds=%s]", tolerance.kind(), tolerance.value(),
+                strengthWeight, ambiguityOdds());
     }
 
     /**
@@ -708,7 +1204,7 @@ public final class Identifier {
             c.cheapestBlends();
             for (int r = 0; r < rows; r++) {
                 for (int q = c.start[r]; q < c.start[r + 1]; q++) {
-                    if (!c.isBlend(c.line[q])) {
+                    if (!c.isBlend(c.line[q]) && c.cost[q] != Component.OFF) {
                         matrix[r * cols + c.line[q] - lineMin] = c.cost[q];
                     }
                 }

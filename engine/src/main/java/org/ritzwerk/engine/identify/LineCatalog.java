@@ -23,12 +23,15 @@ public final class LineCatalog {
     private final int[] species;
     private final String[] label;
     private final boolean[] blend;
+    /** Per blend, the wavelength span of its components (metres; 0 for other lines). */
+    private final double[] spread;
     private final List<Species> speciesList;
     private final double maxSigma;
 
     private LineCatalog(double[] wavelength, double[] sigma, double[] strength, int[] species, String[] label,
-            boolean[] blend, List<Species> speciesList) {
+            boolean[] blend, double[] spread, List<Species> speciesList) {
         this.blend = blend;
+        this.spread = spread;
         this.wavelength = wavelength;
         this.sigma = sigma;
         this.strength = strength;
@@ -94,6 +97,19 @@ public final class LineCatalog {
         return blend[j];
     }
 
+    /**
+     * @param j line index
+     * @return for a blend, the wavelength span of its components (longest minus shortest),
+     *         metres, 0 when not declared; 0 for every other line
+     */
+    public double blendSpread(int j) {
+        return spread[j];
+    }
+
+    double[] blendSpreads() {
+        return spread;
+    }
+
     /** @return the blend flags, or null when no line is a blend */
     boolean[] blends() {
         for (boolean b : blend) {
@@ -133,11 +149,13 @@ public final class LineCatalog {
         }
         double[] moved = new double[wavelength.length];
         double[] movedSigma = new double[wavelength.length];
+        double[] movedSpread = new double[wavelength.length];
         for (int j = 0; j < moved.length; j++) {
             moved[j] = wavelength[j] * (1 + redshift);
             movedSigma[j] = sigma[j] * (1 + redshift);
+            movedSpread[j] = spread[j] * (1 + redshift);
         }
-        return new LineCatalog(moved, movedSigma, strength, species, label, blend, speciesList);
+        return new LineCatalog(moved, movedSigma, strength, species, label, blend, movedSpread, speciesList);
     }
 
     /**
@@ -155,7 +173,7 @@ public final class LineCatalog {
                 throw new IllegalArgumentException("offset " + metres + " m moves line " + j + " below zero");
             }
         }
-        return new LineCatalog(moved, sigma, strength, species, label, blend, speciesList);
+        return new LineCatalog(moved, sigma, strength, species, label, blend, spread, speciesList);
     }
 
     /** Collects lines; not thread-safe. */
@@ -167,6 +185,7 @@ public final class LineCatalog {
         private int[] species = new int[64];
         private String[] label = new String[64];
         private boolean[] blend = new boolean[64];
+        private double[] spread = new double[64];
         private int size;
 
         private Builder() {
@@ -187,7 +206,9 @@ public final class LineCatalog {
 
         /**
          * Adds a line that may explain several peaks: an unresolved blend or multiplet, whose parts
-         * an instrument may show as separate peaks. Parameters as for
+         * an instrument may show as separate peaks, with no declared spread of its components (so
+         * it explains several peaks only when they lie within the tolerance of one another; see
+         * {@link Identifier}). Parameters as for
          * {@link #add(Species, double, double, double, String)}.
          *
          * @param s            species
@@ -198,7 +219,31 @@ public final class LineCatalog {
          * @return this builder
          */
         public Builder addBlend(Species s, double vacuumMetres, double sigmaMetres, double expected, String name) {
-            return add(s, vacuumMetres, sigmaMetres, expected, name, true);
+            return addBlend(s, vacuumMetres, sigmaMetres, expected, name, 0);
+        }
+
+        /**
+         * Adds a blend whose components span {@code spreadMetres} of vacuum wavelength (longest
+         * minus shortest component): it may explain several peaks only when they lie within that
+         * spread plus the tolerance of one another (see {@link Identifier}).
+         *
+         * @param s            species
+         * @param vacuumMetres vacuum wavelength in metres (e.g. the weighted mean of the components)
+         * @param sigmaMetres  standard uncertainty in metres
+         * @param expected     expected intensity, or NaN
+         * @param name         label, or null
+         * @param spreadMetres the components' span, metres; finite, not negative
+         * @return this builder
+         */
+        public Builder addBlend(Species s, double vacuumMetres, double sigmaMetres, double expected, String name,
+                double spreadMetres) {
+            if (!(spreadMetres >= 0) || Double.isInfinite(spreadMetres)) {
+                throw new IllegalArgumentException("line " + size + ": a blend's spread must be finite and >= 0, got "
+                        + spreadMetres + " m");
+            }
+            add(s, vacuumMetres, sigmaMetres, expected, name, true);
+            spread[size - 1] = spreadMetres;
+            return this;
         }
 
         private Builder add(Species s, double vacuumMetres, double sigmaMetres, double expected, String name,
@@ -224,6 +269,7 @@ public final class LineCatalog {
                 species = Arrays.copyOf(species, capacity);
                 label = Arrays.copyOf(label, capacity);
                 blend = Arrays.copyOf(blend, capacity);
+                spread = Arrays.copyOf(spread, capacity);
             }
             int index = speciesList.indexOf(s);
             if (index < 0) {
@@ -236,6 +282,7 @@ public final class LineCatalog {
             species[size] = index;
             label[size] = name;
             blend[size] = blended;
+            spread[size] = 0;
             size++;
             return this;
         }
@@ -262,6 +309,7 @@ public final class LineCatalog {
             int[] sp = new int[size];
             String[] lb = new String[size];
             boolean[] bl = new boolean[size];
+            double[] sp2 = new double[size];
             for (int k = 0; k < size; k++) {
                 int j = order[k];
                 w[k] = wavelength[j];
@@ -273,8 +321,9 @@ public final class LineCatalog {
                 sp[k] = species[j];
                 lb[k] = label[j];
                 bl[k] = blend[j];
+                sp2[k] = spread[j];
             }
-            return new LineCatalog(w, u, st, sp, lb, bl, Collections.unmodifiableList(new ArrayList<>(speciesList)));
+            return new LineCatalog(w, u, st, sp, lb, bl, sp2, Collections.unmodifiableList(new ArrayList<>(speciesList)));
         }
 
         private double minPositive(int s) {
