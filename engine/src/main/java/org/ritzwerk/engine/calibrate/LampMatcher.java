@@ -34,16 +34,22 @@ import org.ritzwerk.medium.Medium;
  *
  * <p><b>Growth with a curvature prior.</b> A seed is grown one pair at a time. Its polynomial
  * (degree {@code maxDegree}) is a Bayesian least-squares fit ({@link CurvedPolynomial}) in which
- * each pair scatters by a third of the tolerance and the curvature terms have Gaussian priors: the
+ * each pair scatters by a sixth of the tolerance and the curvature terms have Gaussian priors: the
  * quadratic term allows the slope d lambda / d p to change by up to {@code maxCurvature} (default
  * 1, that is 100 %) from one end of the detector to the other, the cubic and higher terms less.
  * Three close pairs therefore predict well near themselves and ever more loosely away from them,
  * and the prediction's own standard deviation says how far: each unpaired strong peak has the
  * window tolerance + 3 sigma of its prediction. A peak with no lamp line in its window is set
  * aside as foreign (another gas, a second-order ghost); of the peaks with exactly one free line in
- * their window, the one with the narrowest window is paired and the polynomial refitted; peaks
- * with several lines in their window wait until the polynomial is surer. Growth ends when no
- * peak can be paired. No extrapolation is trusted beyond what the prior and the pairs so far
+ * their window (or a nearest one that every other trails by more than the tolerance), the one with
+ * the narrowest window is paired and the polynomial refitted, and the pair is dropped again (the
+ * peak set aside) when the refitted polynomial still misses it by more than half the tolerance;
+ * peaks with several lines in their window wait until the polynomial is surer. Only the frontier
+ * is looked at (the open peaks between the pairs and three beyond each end). Growth ends when no
+ * peak can be paired. To keep the cost near that of a straight-line search, a seed is grown only
+ * when its straight line puts a lamp line near a neighbouring strong peak (allowing for the bend),
+ * seeds that reach the same four pairs are grown once, and growths with under half the pairs of
+ * the best so far are not verified. No extrapolation is trusted beyond what the prior and the pairs so far
  * support, so a curved dispersion is followed, not overshot.
  *
  * <p><b>Verification and score.</b> The grown polynomial must be monotonic in the seed's
@@ -74,8 +80,9 @@ import org.ritzwerk.medium.Medium;
  * {@link #withStrongest(int, int)}. A dispersion whose slope changes by more than
  * {@code maxCurvature} across the detector needs {@link #withMaxCurvature(double)}.
  *
- * <p><b>Refinement.</b> The winner is re-matched against every peak and every line, and
- * refitted, until the pairs stop changing (at most 10 passes).
+ * <p><b>Refinement.</b> The winner is grown again over every peak, weak ones included, in the same
+ * way (where the strong peaks left gaps), then re-matched against every peak and every line and
+ * refitted until the pairs stop changing (at most 10 passes).
  *
  * <p><b>Failures</b> ({@link CalibrationException}): fewer than 3 peaks
  * ({@link CalibrationException#TOO_FEW_PEAKS}) or lines within the prior
@@ -653,16 +660,49 @@ public final class LampMatcher {
             int np = strongPixel.length;
             int[] lineOf = new int[np];
             Arrays.fill(lineOf, -1);
-            boolean[] closed = new boolean[np];
             for (int s = 0; s < 3; s++) {
                 lineOf[seedPeak[s]] = seedLine[s];
             }
             double slopeGuess = (windowNm[seedLine[2]] - windowNm[seedLine[0]])
                     / ((strongPixel[seedPeak[2]] - strongPixel[seedPeak[0]]) / half);
-            if (!fitStrong(lineOf, slopeGuess)) {
+            if (!fitOn(strongPixel, lineOf, slopeGuess)) {
                 return null;
             }
-            int pairs = 3;
+            int pairs = extend(strongPixel, lineOf, sign, true);
+            if (pairs < 0) {
+                return null;
+            }
+            // A growth that stopped at a few pairs, or at under half of the best growth so
+            // far, cannot win: not worth verifying.
+            if (pairs < Math.min(MIN_MATCHES, window.length) || pairs < 0.5 * mostPairs) {
+                return null;
+            }
+            mostPairs = Math.max(mostPairs, pairs);
+            GrowthKey key = new GrowthKey(sign, lineOf);
+            if (verified.containsKey(key)) {
+                return verified.get(key);
+            }
+            Candidate result = verify(polynomial.coefficients(), sign);
+            verified.put(key, result);
+            evaluated++;
+            return result;
+        }
+
+        /**
+         * Pairs the peaks at {@code peakPixel} one at a time, the narrowest prediction window with
+         * exactly one free line first, refitting after each (see the class comment), starting from
+         * the pairs in {@code lineOf} and the polynomial fitted to them.
+         *
+         * @param memo whether to stop (returning -1) when the pairs reach a set already grown
+         * @return the number of pairs, or -1 when the growth stopped
+         */
+        private int extend(double[] peakPixel, int[] lineOf, int sign, boolean memo) {
+            int np = peakPixel.length;
+            boolean[] closed = new boolean[np];
+            int pairs = 0;
+            for (int l : lineOf) {
+                pairs += l >= 0 ? 1 : 0;
+            }
             while (true) {
                 int pick = -1;
                 int pickLine = -1;
@@ -690,7 +730,7 @@ public final class LampMatcher {
                         if (side != 0) {
                             beyond++;
                         }
-                        double x = (strongPixel[k] - mid) / half;
+                        double x = (peakPixel[k] - mid) / half;
                         double slopeNm = polynomial.derivative(x) / half;
                         if (!(slopeNm * sign > 0)) {
                             closed[k] = true; // the polynomial folds here: no prediction
@@ -698,7 +738,7 @@ public final class LampMatcher {
                         }
                         double predicted = polynomial.value(x);
                         double widthNm = tolerance * Math.abs(slopeNm) + 3 * polynomial.sigma(x);
-                        int only = onlyFreeLine(predicted, widthNm, lineOf);
+                        int only = onlyFreeLine(predicted, widthNm, tolerance * Math.abs(slopeNm), lineOf);
                         if (only == NONE) {
                             closed[k] = true; // no lamp line can be this peak: a foreign line or a ghost
                         } else if (only >= 0 && widthNm / Math.abs(slopeNm) < pickWidth) {
@@ -709,34 +749,37 @@ public final class LampMatcher {
                     }
                 }
                 if (pick < 0) {
-                    break;
+                    return pairs;
                 }
                 lineOf[pick] = pickLine;
-                if (++pairs == MEMO_PAIRS) {
+                if (!fitOn(peakPixel, lineOf, polynomial.slope())) {
+                    return -1;
+                }
+                double x = (peakPixel[pick] - mid) / half;
+                double residual = Math.abs(polynomial.value(x) - windowNm[pickLine])
+                        / Math.abs(polynomial.derivative(x) / half);
+                if (residual > 3 * scatter()) {
+                    // The polynomial bends to take this pair but cannot follow it: not this line.
+                    lineOf[pick] = -1;
+                    closed[pick] = true;
+                    if (!fitOn(peakPixel, lineOf, polynomial.slope())) {
+                        return -1;
+                    }
+                    continue;
+                }
+                if (++pairs == MEMO_PAIRS && memo) {
                     // From here on the growth depends only on the pairs so far (up to the peaks set
                     // aside): seeds that reach the same four pairs end alike, so grow each set once.
                     if (!started.add(new GrowthKey(sign, lineOf.clone()))) {
-                        return null;
+                        return -1;
                     }
                 }
-                if (!fitStrong(lineOf, polynomial.slope())) {
-                    return null;
-                }
             }
-            // A growth that stopped at a few pairs, or at under half of the best growth so
-            // far, cannot win: not worth verifying.
-            if (pairs < Math.min(MIN_MATCHES, window.length) || pairs < 0.5 * mostPairs) {
-                return null;
-            }
-            mostPairs = Math.max(mostPairs, pairs);
-            GrowthKey key = new GrowthKey(sign, lineOf);
-            if (verified.containsKey(key)) {
-                return verified.get(key);
-            }
-            Candidate result = verify(polynomial.coefficients(), sign);
-            verified.put(key, result);
-            evaluated++;
-            return result;
+        }
+
+        /** Scatter of a pair about the polynomial, pixels: a sixth of the tolerance. */
+        private double scatter() {
+            return tolerance / 6;
         }
 
         /** Marker of {@link #onlyFreeLine}: no free line in the window. */
@@ -744,20 +787,30 @@ public final class LampMatcher {
         /** Marker of {@link #onlyFreeLine}: more than one. */
         private static final int SEVERAL = -2;
 
-        /** The one window line within widthNm of nm that no strong peak has taken, or NONE / SEVERAL. */
-        private int onlyFreeLine(double nm, double widthNm, int[] lineOf) {
+        /**
+         * The window line within widthNm of nm that no peak has taken, when it is the only one or
+         * every other lies more than a tolerance further away; else NONE or SEVERAL.
+         */
+        private int onlyFreeLine(double nm, double widthNm, double toleranceNm, int[] lineOf) {
             int from = lowerBound(nm - widthNm);
-            int found = NONE;
+            int nearest = NONE;
+            double d1 = Double.POSITIVE_INFINITY;
+            double d2 = Double.POSITIVE_INFINITY;
             for (int l = from; l < windowNm.length && windowNm[l] <= nm + widthNm; l++) {
                 if (taken(l, lineOf)) {
                     continue;
                 }
-                if (found != NONE) {
-                    return SEVERAL;
+                double d = Math.abs(windowNm[l] - nm);
+                if (d < d1) {
+                    d2 = d1;
+                    d1 = d;
+                    nearest = l;
+                } else if (d < d2) {
+                    d2 = d;
                 }
-                found = l;
             }
-            return found;
+            // One free line, or a nearest one that the others trail by more than a tolerance.
+            return nearest == NONE || d2 - d1 > toleranceNm ? nearest : SEVERAL;
         }
 
         private boolean taken(int line, int[] lineOf) {
@@ -781,12 +834,12 @@ public final class LampMatcher {
             return k;
         }
 
-        /** Fits the strong pairs; false when the fit fails. */
-        private boolean fitStrong(int[] lineOf, double slope) {
+        /** Fits the pairs of the peaks at peakPixel; false when the fit fails. */
+        private boolean fitOn(double[] peakPixel, int[] lineOf, double slope) {
             int m = 0;
             for (int k = 0; k < lineOf.length; k++) {
                 if (lineOf[k] >= 0) {
-                    fitX[m] = (strongPixel[k] - mid) / half;
+                    fitX[m] = (peakPixel[k] - mid) / half;
                     fitY[m] = windowNm[lineOf[k]];
                     m++;
                 }
@@ -804,8 +857,7 @@ public final class LampMatcher {
             for (int d = 2; d < sigma.length; d++) {
                 sigma[d] *= a1;
             }
-            // Scatter of a pair about the polynomial: a third of the tolerance, in nm.
-            double noise = tolerance / 3 * a1 / half;
+            double noise = scatter() * a1 / half;
             return polynomial.fit(fitX, fitY, m, noise, sigma);
         }
 
@@ -1015,6 +1067,21 @@ public final class LampMatcher {
             double[] a = best.coefficients;
             int n = centre.length;
             int[] matched = new int[n];
+            // Grow the winner over every peak, weak ones included, under the curvature prior: where
+            // the strong peaks left gaps, the fixed-tolerance matching below could not reach.
+            int[] sortedLineOf = new int[n];
+            int[] byPixel = sortBy(identity(n), k -> centre[k]);
+            double[] sortedPixel = new double[n];
+            assign(a, centre, matched);
+            for (int i = 0; i < n; i++) {
+                sortedPixel[i] = centre[byPixel[i]];
+                sortedLineOf[i] = matched[byPixel[i]];
+            }
+            if (fitOn(sortedPixel, sortedLineOf, a[1]) && extend(sortedPixel, sortedLineOf, best.sign, false) > 0
+                    && fitOn(sortedPixel, sortedLineOf, polynomial.slope())
+                    && withinPrior(polynomial.coefficients(), best.sign)) {
+                a = polynomial.coefficients();
+            }
             int[] previous = null;
             for (int pass = 0; pass < MAX_REFINE_PASSES; pass++) {
                 int count = assign(a, centre, matched);
@@ -1063,6 +1130,14 @@ public final class LampMatcher {
                     lines.sigmasGiven(), residual, strongPixel.length, measured.strongMatched, a.length - 1, hypotheses,
                     firstNm, lastNm, lines.medium(), measured.chance, chanceProbability(measured), evaluated));
         }
+    }
+
+    private static int[] identity(int n) {
+        int[] out = new int[n];
+        for (int i = 0; i < n; i++) {
+            out[i] = i;
+        }
+        return out;
     }
 
     private static int[] indicesOf(int[] matched) {

@@ -65,7 +65,9 @@ class CalibrationEndToEndTest {
         org.ritzwerk.atom.Species[] species = new org.ritzwerk.atom.Species[neon.size()];
         java.util.Arrays.fill(species, org.ritzwerk.atom.Species.parse("Ne I"));
         LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, neon, species, 3);
-        assertTrue(refined.size() >= 40, "pairs " + refined.size());
+        // 41 of the 43 lines fall on the detector; the identifier leaves out peaks whose
+        // assignment it flags ambiguous (posterior odds under 20:1), as near the unresolved pairs.
+        assertTrue(refined.size() >= 39, "pairs " + refined.size());
         for (int i = 0; i < refined.size(); i++) {
             double truePixel = LampScene.truthPixelOf(refined.wavelength(i));
             // A line with another lamp line within the 0.4 nm resolution is an unresolved blend
