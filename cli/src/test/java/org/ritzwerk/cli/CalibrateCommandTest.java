@@ -159,7 +159,7 @@ class CalibrateCommandTest {
         CliTest.Run csv = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--format", "csv");
         assertEquals(0, csv.code(), csv.err());
         String[] rows = csv.out().split("\n");
-        assertEquals("pixel,pixel_sigma,line,wavelength_nm,solution_nm,residual_nm,residual_pixels,used", rows[0]);
+        assertEquals("pixel,pixel_sigma,line,wavelength_nm,solution_nm,residual_nm,residual_pixels,used,flag", rows[0]);
         assertTrue(rows.length > 10, csv.out());
     }
 
