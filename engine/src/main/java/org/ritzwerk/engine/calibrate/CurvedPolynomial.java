@@ -25,6 +25,7 @@ final class CurvedPolynomial {
     private final double[] mean;
     private final double[] phi;
     private final double[] work;
+    private double weight;
 
     /** @param degree D, 1 to 5 */
     CurvedPolynomial(int degree) {
@@ -70,6 +71,10 @@ final class CurvedPolynomial {
         for (int m = 2; m < terms; m++) {
             precision[m][m] += 1 / (priorSigma[m] * priorSigma[m]);
         }
+        return factorAndSolve();
+    }
+
+    private boolean factorAndSolve() {
         // Cholesky: precision = L L^T, lower triangle in factor.
         for (int r = 0; r < terms; r++) {
             for (int c = 0; c <= r; c++) {
@@ -89,6 +94,53 @@ final class CurvedPolynomial {
         }
         solve(rhs, mean);
         return true;
+    }
+
+    /**
+     * Starts an incremental fit with no points: {@link #add} and {@link #remove} points, then
+     * {@link #solveNow}.
+     *
+     * @param noise      standard deviation of y, &gt; 0
+     * @param priorSigma s_m as in {@link #fit}
+     */
+    void reset(double noise, double[] priorSigma) {
+        weight = 1 / (noise * noise);
+        for (int r = 0; r < terms; r++) {
+            java.util.Arrays.fill(precision[r], 0);
+            rhs[r] = 0;
+        }
+        for (int m = 2; m < terms; m++) {
+            precision[m][m] += 1 / (priorSigma[m] * priorSigma[m]);
+        }
+    }
+
+    /** Adds the point (x, y) to the incremental fit. */
+    void add(double x, double y) {
+        update(x, y, weight);
+    }
+
+    /** Removes a point added before. */
+    void remove(double x, double y) {
+        update(x, y, -weight);
+    }
+
+    private void update(double x, double y, double w) {
+        double power = 1;
+        for (int r = 0; r < terms; r++) {
+            phi[r] = power;
+            power *= x;
+        }
+        for (int r = 0; r < terms; r++) {
+            rhs[r] += w * phi[r] * y;
+            for (int c = 0; c <= r; c++) {
+                precision[r][c] += w * phi[r] * phi[c];
+            }
+        }
+    }
+
+    /** @return whether the incremental fit's points determine a_0 and a_1 (then solved) */
+    boolean solveNow() {
+        return factorAndSolve();
     }
 
     /** Solves L L^T v = b. */

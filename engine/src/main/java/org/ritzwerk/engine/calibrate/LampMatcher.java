@@ -18,11 +18,11 @@ import org.ritzwerk.medium.Medium;
  *
  * <p><b>Seeds.</b> The strongest {@code strongPeaks} peaks (by flux) and the strongest
  * {@code strongLines} lines within the prior's wavelength range (by relative intensity) are each
- * sorted by position. Every triplet of nearby peaks (the outer two at most three strong peaks
+ * sorted by position. Every triplet of nearby peaks (the outer two at most four strong peaks
  * apart) is compared with every triplet of nearby lines (the outer two at most
- * {@value #LINE_NEIGHBOURS} strong lines apart, in the order the dispersion's sign implies): the
+ * eight strong lines apart, in the order the dispersion's sign implies): the
  * ratio of the inner gap to the outer gap is invariant under a linear map, so a triplet pair whose
- * middle line lies within {@code tolerance + 0.02 span + maxCurvature span^2 / (8 N)} pixels of
+ * middle line lies within {@code tolerance + 0.005 span + maxCurvature span^2 / (8 N)} pixels of
  * where the outer pair puts it (the last term is how far a dispersion whose slope changes by
  * {@code maxCurvature} over the N pixels bends away from a straight line over the span), and whose
  * dispersion lies in the prior, seeds a hypothesis. (Local triplets tolerate the
@@ -70,7 +70,11 @@ import org.ritzwerk.medium.Medium;
  * more strong peaks than chance explains: with lambda = sum over the strong peaks of
  * min(1, 2 tolerance rho) the number of chance matches expected, the Poisson probability
  * P(X &gt;= matched) times the number of distinct grown hypotheses must not exceed
- * {@value #MAX_FALSE_ALARM}. The third test does not depend on any setting, so lowering
+ * {@value #MAX_FALSE_ALARM}, and (4) the pairs must scatter about the refined polynomial as their
+ * centroid uncertainties allow: (1.4826 median |residual| / median centroid uncertainty)^2, a
+ * robust reduced chi-square, at most {@value #MAX_ROBUST_CHI_SQUARE} (a pairing that is right in
+ * one part of the detector and one line off in another bends the polynomial and fails here). The
+ * third and fourth tests do not depend on any setting, so lowering
  * {@code minInlierFraction} never lets a chance pairing through. The figures are kept in the
  * {@link LampMatch} ({@link LampMatch#chanceMatches()}, {@link LampMatch#chanceProbability()}).
  *
@@ -103,6 +107,11 @@ public final class LampMatcher {
     public static final int MIN_FEW_LINE_MATCHES = 3;
     /** Default largest relative change of the slope across the detector the search allows. */
     public static final double DEFAULT_MAX_CURVATURE = 1.0;
+    /**
+     * Largest accepted robust reduced chi-square of the pairs about the matcher's polynomial
+     * (see the class comment); the calibration job's final fit has the same default limit.
+     */
+    public static final double MAX_ROBUST_CHI_SQUARE = 25;
     /** Largest accepted probability (times the hypotheses tried) that chance explains the pairs. */
     public static final double MAX_FALSE_ALARM = 0.01;
     /** Default matching tolerance in pixels. */
@@ -117,8 +126,8 @@ public final class LampMatcher {
     public static final double DEFAULT_MIN_INLIER_FRACTION = 0.5;
 
     private static final int PEAK_NEIGHBOURS = 4;
-    private static final int LINE_NEIGHBOURS = 16;
-    private static final double SPAN_TOLERANCE = 0.02;
+    private static final int LINE_NEIGHBOURS = 8;
+    private static final double SPAN_TOLERANCE = 0.005;
     /** Most matchings of every peak while verifying a grown polynomial. */
     private static final int VERIFY_PASSES = 4;
     /** Pairs that offset, slope and curvature can always be made to meet; not evidence. */
@@ -383,7 +392,10 @@ public final class LampMatcher {
                 span(lines), shown.strongMatched, shownSearch.strong.length,
                 100.0 * shown.strongMatched / shownSearch.strong.length, 100 * minInlierFraction, shown.preciseMatched,
                 shown.preciseTolerance, shown.chance, chanceProbability(shown), shownSearch.evaluated,
-                MAX_FALSE_ALARM, where(inside, anywhere)));
+                MAX_FALSE_ALARM, where(inside, anywhere))
+                + String.format(Locale.ROOT, "; the pairs scatter about its polynomial with a robust reduced "
+                        + "chi-square of %.3g (at most %.3g accepted)", shownRefined.robustChiSquare(),
+                        MAX_ROBUST_CHI_SQUARE));
     }
 
     /** Where the search looked and what it tried, for messages. */
@@ -401,7 +413,7 @@ public final class LampMatcher {
             return false;
         }
         Candidate c = refined.measured();
-        return c.strongMatched >= needed
+        return c.strongMatched >= needed && refined.robustChiSquare() <= MAX_ROBUST_CHI_SQUARE
                 && c.strongMatched >= minInlierFraction * search.strong.length
                 && (needed < MIN_MATCHES || chanceProbability(c) * Math.max(1, search.evaluated) <= MAX_FALSE_ALARM);
     }
@@ -470,6 +482,32 @@ public final class LampMatcher {
 
     /** A refined winner: its figures after refinement, and the pairs. */
     private record Refined(Candidate measured, LampMatch match) {
+
+        /**
+         * The pairs' robust scatter about the matcher's polynomial (1.4826 x the median absolute
+         * residual) over their typical centroid uncertainty (the median, at least
+         * {@value #SIGMA_FLOOR} pixel), squared: a robust reduced chi-square.
+         */
+        double robustChiSquare() {
+            int n = match.size();
+            if (n == 0) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double[] r = new double[n];
+            double[] sigma = new double[n];
+            for (int i = 0; i < n; i++) {
+                r[i] = Math.abs(match.residualPixels(i));
+                sigma[i] = match.pixelSigma(i);
+            }
+            Arrays.sort(r);
+            Arrays.sort(sigma);
+            double scatter = 1.4826 * r[(n - 1) / 2];
+            double typical = Math.max(SIGMA_FLOOR, sigma[(n - 1) / 2]);
+            return scatter * scatter / (typical * typical);
+        }
+
+        /** Smallest centroid uncertainty the plausibility test assumes, pixels. */
+        static final double SIGMA_FLOOR = 0.1;
     }
 
     /** The search over one prior. */
@@ -493,6 +531,8 @@ public final class LampMatcher {
         private long hypotheses;
         private int evaluated;
         private int mostPairs;
+        private int[] takenMark = new int[0];
+        private int stamp;
         private final Map<GrowthKey, Candidate> verified = new HashMap<>();
         private final Set<GrowthKey> started = new HashSet<>();
         private int[] owner = new int[0];
@@ -527,6 +567,7 @@ public final class LampMatcher {
                 windowNm[k] = lines.wavelength(window[k]);
             }
             strongLine = strongest(window.length, strongLines, k -> lines.intensity(window[k]), k -> windowNm[k]);
+            takenMark = new int[window.length];
             int degree = Math.max(1, maxDegree);
             polynomial = new CurvedPolynomial(degree);
             // Prior widths of the curvature terms relative to a_1 (scaled pixel): a slope change of
@@ -665,7 +706,7 @@ public final class LampMatcher {
             }
             double slopeGuess = (windowNm[seedLine[2]] - windowNm[seedLine[0]])
                     / ((strongPixel[seedPeak[2]] - strongPixel[seedPeak[0]]) / half);
-            if (!fitOn(strongPixel, lineOf, slopeGuess)) {
+            if (!startFit(strongPixel, lineOf, slopeGuess)) {
                 return null;
             }
             int pairs = extend(strongPixel, lineOf, sign, true);
@@ -698,6 +739,7 @@ public final class LampMatcher {
          */
         private int extend(double[] peakPixel, int[] lineOf, int sign, boolean memo) {
             int np = peakPixel.length;
+            markTaken(lineOf);
             boolean[] closed = new boolean[np];
             int pairs = 0;
             for (int l : lineOf) {
@@ -752,17 +794,21 @@ public final class LampMatcher {
                     return pairs;
                 }
                 lineOf[pick] = pickLine;
-                if (!fitOn(peakPixel, lineOf, polynomial.slope())) {
+                takenMark[pickLine] = stamp;
+                double xPick = (peakPixel[pick] - mid) / half;
+                polynomial.add(xPick, windowNm[pickLine]);
+                if (!polynomial.solveNow()) {
                     return -1;
                 }
-                double x = (peakPixel[pick] - mid) / half;
-                double residual = Math.abs(polynomial.value(x) - windowNm[pickLine])
-                        / Math.abs(polynomial.derivative(x) / half);
+                double residual = Math.abs(polynomial.value(xPick) - windowNm[pickLine])
+                        / Math.abs(polynomial.derivative(xPick) / half);
                 if (residual > 3 * scatter()) {
                     // The polynomial bends to take this pair but cannot follow it: not this line.
                     lineOf[pick] = -1;
+                    takenMark[pickLine] = 0;
                     closed[pick] = true;
-                    if (!fitOn(peakPixel, lineOf, polynomial.slope())) {
+                    polynomial.remove(xPick, windowNm[pickLine]);
+                    if (!polynomial.solveNow()) {
                         return -1;
                     }
                     continue;
@@ -797,7 +843,7 @@ public final class LampMatcher {
             double d1 = Double.POSITIVE_INFINITY;
             double d2 = Double.POSITIVE_INFINITY;
             for (int l = from; l < windowNm.length && windowNm[l] <= nm + widthNm; l++) {
-                if (taken(l, lineOf)) {
+                if (taken(l)) {
                     continue;
                 }
                 double d = Math.abs(windowNm[l] - nm);
@@ -813,13 +859,21 @@ public final class LampMatcher {
             return nearest == NONE || d2 - d1 > toleranceNm ? nearest : SEVERAL;
         }
 
-        private boolean taken(int line, int[] lineOf) {
+        private boolean taken(int line) {
+            return takenMark[line] == stamp;
+        }
+
+        /** Starts a new growth: marks the lines of lineOf as taken (and no other). */
+        private void markTaken(int[] lineOf) {
+            if (++stamp == Integer.MAX_VALUE) {
+                Arrays.fill(takenMark, 0);
+                stamp = 1;
+            }
             for (int l : lineOf) {
-                if (l == line) {
-                    return true;
+                if (l >= 0) {
+                    takenMark[l] = stamp;
                 }
             }
-            return false;
         }
 
         /** The first window index whose wavelength is &gt;= nm. */
@@ -832,6 +886,33 @@ public final class LampMatcher {
                 k--;
             }
             return k;
+        }
+
+        /**
+         * Starts an incremental fit of the pairs of the peaks at peakPixel, its scatter and
+         * curvature prior scaled by the slope a_1 given (kept for the whole growth); false when
+         * the fit fails.
+         */
+        private boolean startFit(double[] peakPixel, int[] lineOf, double slope) {
+            double a1 = Math.abs(slope);
+            if (!(a1 > 0) || Double.isInfinite(a1)) {
+                return false;
+            }
+            polynomial.reset(scatter() * a1 / half, scaledPrior(a1));
+            for (int k = 0; k < lineOf.length; k++) {
+                if (lineOf[k] >= 0) {
+                    polynomial.add((peakPixel[k] - mid) / half, windowNm[lineOf[k]]);
+                }
+            }
+            return polynomial.solveNow();
+        }
+
+        private double[] scaledPrior(double a1) {
+            double[] sigma = priorSigma.clone();
+            for (int d = 2; d < sigma.length; d++) {
+                sigma[d] *= a1;
+            }
+            return sigma;
         }
 
         /** Fits the pairs of the peaks at peakPixel; false when the fit fails. */
@@ -1077,7 +1158,7 @@ public final class LampMatcher {
                 sortedPixel[i] = centre[byPixel[i]];
                 sortedLineOf[i] = matched[byPixel[i]];
             }
-            if (fitOn(sortedPixel, sortedLineOf, a[1]) && extend(sortedPixel, sortedLineOf, best.sign, false) > 0
+            if (startFit(sortedPixel, sortedLineOf, a[1]) && extend(sortedPixel, sortedLineOf, best.sign, false) > 0
                     && fitOn(sortedPixel, sortedLineOf, polynomial.slope())
                     && withinPrior(polynomial.coefficients(), best.sign)) {
                 a = polynomial.coefficients();
