@@ -934,12 +934,7 @@ public final class LampMatcher {
             if (!(a1 > 0) || Double.isInfinite(a1)) {
                 return false;
             }
-            double[] sigma = priorSigma.clone();
-            for (int d = 2; d < sigma.length; d++) {
-                sigma[d] *= a1;
-            }
-            double noise = scatter() * a1 / half;
-            return polynomial.fit(fitX, fitY, m, noise, sigma);
+            return polynomial.fit(fitX, fitY, m, scatter() * a1 / half, scaledPrior(a1));
         }
 
         /**
@@ -962,15 +957,7 @@ public final class LampMatcher {
                     break;
                 }
                 System.arraycopy(matched, 0, previous, 0, matched.length);
-                int m = 0;
-                for (int k = 0; k < centre.length; k++) {
-                    if (matched[k] >= 0) {
-                        fitX[m] = (centre[k] - mid) / half;
-                        fitY[m] = windowNm[matched[k]];
-                        m++;
-                    }
-                }
-                if (!fitPairs(m, a[1])) {
+                if (!fitOn(centre, matched, a[1])) {
                     return null;
                 }
                 a = polynomial.coefficients();
@@ -1170,15 +1157,7 @@ public final class LampMatcher {
                     break;
                 }
                 previous = matched.clone();
-                int m = 0;
-                for (int k = 0; k < n; k++) {
-                    if (matched[k] >= 0) {
-                        fitX[m] = (centre[k] - mid) / half;
-                        fitY[m] = windowNm[matched[k]];
-                        m++;
-                    }
-                }
-                if (count < MIN_FEW_LINE_MATCHES || !fitPairs(m, a[1])
+                if (count < MIN_FEW_LINE_MATCHES || !fitOn(centre, matched, a[1])
                         || !withinPrior(polynomial.coefficients(), best.sign)) {
                     break;
                 }
