@@ -45,6 +45,20 @@ class LampSetsTest {
     }
 
     @Test
+    void everyLampSetsElementHasNuclearDataSoItCanBeSynthesised() {
+        // A synthetic lamp spectrum needs the emitter's mass (Doppler width): Hg-202 (bodr 10),
+        // Ne-20, Ar-40, Kr-84, Xe-132 (AME2020) are the defaults.
+        DataContext data = DataContext.builtIn();
+        Map<String, Integer> massNumber = Map.of("Hg I", 202, "Ne I", 20, "Ar I", 40, "Kr I", 84, "Xe I", 132);
+        massNumber.forEach((species, a) -> assertEquals((int) a,
+                data.nucleus(org.ritzwerk.atom.Species.parse(species)).massNumber(), species));
+        // Nuclear mass of Hg-202: the atomic mass 201.970643 u less 80 electrons (0.0439 u), in kg
+        // (u = 1.66053906660e-27 kg, CODATA 2018).
+        assertEquals(201.9268, data.nucleus(org.ritzwerk.atom.Species.parse("Hg I")).massKg() / 1.66053906660e-27,
+                1e-3);
+    }
+
+    @Test
     void everyLampSetIsAnAirListWithItsSourceAndTheUsualCaution() {
         // Row counts after the rows without an independent check were dropped (lamps/README.md).
         Map<String, Integer> minimum = Map.of("lamp-hg-i", 14, "lamp-ne-i", 43, "lamp-ar-i", 34, "lamp-kr-i", 35,

@@ -54,6 +54,11 @@ QCEL_CODATA = "/usr/lib/python3/dist-packages/qcelemental/data/nist_2018_codata.
 
 QUOTED_REF = "a public tabular extract of the IAEA LiveChart of Nuclides"
 
+# Isotopes taken from bodr 10 alone (mass, its uncertainty and spin; no moment, no radius):
+# Hg-202, the most abundant mercury isotope, so that the built-in Hg I lamp set can be
+# synthesised (Doppler widths need the mass).
+BODR_ONLY = [(80, 202)]
+
 # ---------------------------------------------------------------------------
 # Quoted values.  One line per isotope:
 #   z a  mass[micro-u] mass_unc[micro-u]  moment[nm] moment_unc  radius[fm] radius_unc
@@ -349,6 +354,15 @@ def build_rows():
 
         rows.append([str(z), str(a), symbol, dec_str(mass), unc_str(mass_unc), "AME2020",
                      spin, m_val, m_unc, mom_src, r_val, r_unc, r_src])
+    # Isotopes the quoted extract was not read for: mass, uncertainty and spin from bodr 10
+    # itself (its AME2003-era evaluation; ample for Doppler widths and reduced masses).
+    for z, a in BODR_ONLY:
+        b = bodr[(z, a)]
+        spin = spin_plain(b["spin"] or "")
+        if spin != "0":
+            sys.exit(f"bodr-only isotope {z}-{a} needs a moment source (spin {spin})")
+        rows.append([str(z), str(a), b["symbol"], dec_str(b["mass"]), unc_str(b["mass_unc"]), "bodr10",
+                     spin, "", "", "spin=bodr10", "", "", ""])
     rows.sort(key=lambda r: (int(r[0]), int(r[1])))
     return rows, notes
 
@@ -359,7 +373,7 @@ def header_lines(versions, rows):
     return f"""\
 # id: nuclear-isotopes
 # title: Nuclear masses, spins, moments and charge radii of {len(rows)} isotopes
-# source: M. Wang et al., Chin. Phys. C 45, 030003 (2021) (AME2020 masses); N. J. Stone, INDC(NDS)-0794 (2019) and CODATA 2018 (moments); I. Angeli and K. P. Marinova, At. Data Nucl. Data Tables 99, 69 (2013) and CODATA 2018 (radii); Blue Obelisk Data Repository 10, Debian package bodr {versions['bodr']} (spins); the file's source keys say which applies to each value
+# source: M. Wang et al., Chin. Phys. C 45, 030003 (2021) (AME2020 masses); N. J. Stone, INDC(NDS)-0794 (2019) and CODATA 2018 (moments); I. Angeli and K. P. Marinova, At. Data Nucl. Data Tables 99, 69 (2013) and CODATA 2018 (radii); Blue Obelisk Data Repository 10, Debian package bodr {versions['bodr']} (spins, and the mass of Hg-202: source key bodr10); the file's source keys say which applies to each value
 # provenance: published
 # version: 2021 (AME2020; moments 2019; radii 2013; CODATA 2018; bodr 10)
 # Ritzwerk nuclear reference data: one row per isotope.
