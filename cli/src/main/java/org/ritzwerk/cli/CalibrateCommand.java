@@ -146,7 +146,7 @@ final class CalibrateCommand implements Callable<Integer> {
         switch (format) {
             case json:
                 spec.commandLine().getOut().print(CalibrationFiles.toJson(solution, spectrum.pixels(), description,
-                        calibration.pairLabels()));
+                        calibration.pairLabels(), saturatedLines(calibration)));
                 spec.commandLine().getOut().flush();
                 break;
             case csv:
@@ -160,7 +160,7 @@ final class CalibrateCommand implements Callable<Integer> {
         try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
             if (out != null) {
                 batch.text(out, w -> w.write(CalibrationFiles.toJson(solution, spectrum.pixels(), description,
-                        calibration.pairLabels())));
+                        calibration.pairLabels(), saturatedLines(calibration))));
             }
             if (plot != null) {
                 drawResiduals(batch, solution);
@@ -338,6 +338,16 @@ final class CalibrateCommand implements Callable<Integer> {
                     + " and %d paired one(s) were left out of the fit.%n", saturated, saturatedPairs.size());
         }
         w.flush();
+    }
+
+    private static List<CalibrationFiles.SaturatedLine> saturatedLines(Calibration calibration) {
+        LampMatch left = calibration.saturatedPairs();
+        List<CalibrationFiles.SaturatedLine> lines = new ArrayList<>();
+        for (int i = 0; i < left.size(); i++) {
+            lines.add(new CalibrationFiles.SaturatedLine(left.pixel(i), left.wavelength(i),
+                    calibration.saturatedPairLabel(i)));
+        }
+        return lines;
     }
 
     private static void pairs(Calibration calibration, PrintWriter out, Table.Format format) {

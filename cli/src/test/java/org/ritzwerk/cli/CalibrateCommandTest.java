@@ -148,6 +148,28 @@ class CalibrateCommandTest {
     }
 
     @Test
+    void saturatedPeaksAreFlaggedInEveryOutputAndLeftOutOfTheFit(@TempDir Path dir) throws IOException {
+        Path spectrum = lampSpectrum(dir, 15, false);
+        double max = java.util.Arrays.stream(org.ritzwerk.refdata.SpectrumFiles.read(spectrum).counts()).max()
+                .orElseThrow();
+        String level = String.valueOf(0.4 * max);
+        CliTest.Run text = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--saturation", level);
+        assertEquals(0, text.code(), text.err());
+        assertTrue(text.out().contains("saturated, not fitted"), text.out());
+        CliTest.Run csv = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--saturation", level,
+                "--format", "csv");
+        assertTrue(csv.out().contains(",false,saturated"), csv.out());
+        Path file = dir.resolve("saturated.json");
+        CliTest.Run json = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--saturation", level,
+                "--out", file.toString());
+        assertEquals(0, json.code(), json.err());
+        String written = Files.readString(file);
+        assertTrue(written.contains("\"saturated_lines\""), written);
+        DispersionSolution solution = CalibrationFiles.read(file).solution();
+        assertEquals(truth(1000), solution.wavelengthAt(1000), 0.05 * 0.056);
+    }
+
+    @Test
     void csvAndJsonForScripts(@TempDir Path dir) throws IOException {
         Path spectrum = lampSpectrum(dir, 15, false);
         CliTest.Run json = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--format", "json");

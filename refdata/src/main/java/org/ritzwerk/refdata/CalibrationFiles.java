@@ -30,7 +30,9 @@ import tools.jackson.databind.node.ObjectNode;
  *   "power_coefficients_nm": [c0, c1, ...] the same polynomial in the pixel itself, for reference
  *   "degree": 3, "rms_nm": ..., "rms_pixels": ..., "reduced_chi_square": ...,
  *   "lines_used": 31, "lines_rejected": 2,
- *   "lines": [ {"pixel", "wavelength_nm", "sigma_nm", "residual_nm", "residual_pixels", "used", "line"} ]
+ *   "lines": [ {"pixel", "wavelength_nm", "sigma_nm", "residual_nm", "residual_pixels", "used", "line"} ],
+ *   "saturated_lines": [ {"pixel", "wavelength_nm", "line"} ]   paired but left out of the fit
+ *                                         (their peaks reached the saturation level); only when any
  * }
  * </pre>
  * Pixel p (0-based) has its centre at p. Reading uses only the solution's members (medium,
@@ -67,13 +69,34 @@ public final class CalibrationFiles {
      */
     public static void write(Path file, DispersionSolution solution, int pixels, String description,
             List<String> lineLabels) throws IOException {
-        OutputFiles.writeString(file, toJson(solution, pixels, description, lineLabels));
+        OutputFiles.writeString(file, toJson(solution, pixels, description, lineLabels, List.of()));
     }
 
     /**
-     * @return the file's text (see {@link #write})
+     * A pair whose peak reached the detector's saturation level: paired with its lamp line but
+     * left out of the fit.
+     *
+     * @param pixel        the peak's centroid, pixels
+     * @param wavelengthNm the line's wavelength, nm, in the solution's medium
+     * @param line         the line's label
+     */
+    public record SaturatedLine(double pixel, double wavelengthNm, String line) {
+    }
+
+    /**
+     * @return the file's text (see {@link #write}), with no saturated lines
      */
     public static String toJson(DispersionSolution solution, int pixels, String description, List<String> lineLabels) {
+        return toJson(solution, pixels, description, lineLabels, List.of());
+    }
+
+    /**
+     * @param saturated the pairs left out of the fit because their peaks saturated; written as
+     *                  {@code saturated_lines} when there are any
+     * @return the file's text (see {@link #write})
+     */
+    public static String toJson(DispersionSolution solution, int pixels, String description, List<String> lineLabels,
+            List<SaturatedLine> saturated) {
         if (lineLabels.size() != solution.size()) {
             throw new IllegalArgumentException(solution.size() + " fitted pairs but " + lineLabels.size() + " labels");
         }
@@ -125,6 +148,15 @@ public final class CalibrationFiles {
             line.put("residual_pixels", solution.residualPixels(i));
             line.put("used", !solution.isRejected(i));
             line.put("line", lineLabels.get(i));
+        }
+        if (!saturated.isEmpty()) {
+            ArrayNode left = root.putArray("saturated_lines");
+            for (SaturatedLine pair : saturated) {
+                ObjectNode line = left.addObject();
+                line.put("pixel", pair.pixel());
+                line.put("wavelength_nm", pair.wavelengthNm());
+                line.put("line", pair.line());
+            }
         }
         return mapper.writerWithDefaultPrettyPrinter().writeValueAsString(root) + System.lineSeparator();
     }
