@@ -39,7 +39,18 @@ public final class Main {
         commandLine.setErr(err);
         commandLine.setExecutionExceptionHandler(new ErrorReporter());
         commandLine.setParameterExceptionHandler(Main::usageError);
-        int code = commandLine.execute(args);
+        int code;
+        try {
+            code = commandLine.execute(args);
+        } catch (OutOfMemoryError e) {
+            // Not the user's input and not a bug to report with a stack trace: the job needs more
+            // memory than this JVM was given.
+            out.flush();
+            err.println("ritzwerk: out of memory: the job needs more than the " + Runtime.getRuntime().maxMemory()
+                    / (1024 * 1024) + " MiB of heap this Java was given; give more (for example "
+                    + "JAVA_TOOL_OPTIONS=-Xmx4g) or make the job smaller");
+            code = ErrorReporter.INTERNAL;
+        }
         out.flush();
         err.flush();
         return code;

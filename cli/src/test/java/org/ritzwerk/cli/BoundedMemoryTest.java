@@ -33,8 +33,13 @@ class BoundedMemoryTest {
     }
 
     private static Outcome runChild(Path folder, String... args) throws IOException, InterruptedException {
+        return runWithHeap(folder, HEAP, args);
+    }
+
+    private static Outcome runWithHeap(Path folder, String heap, String... args) throws IOException,
+            InterruptedException {
         List<String> command = new ArrayList<>(List.of(
-                Path.of(System.getProperty("java.home"), "bin", "java").toString(), HEAP,
+                Path.of(System.getProperty("java.home"), "bin", "java").toString(), heap,
                 "-cp", System.getProperty("java.class.path"), Main.class.getName()));
         command.addAll(List.of(args));
         Path err = folder.resolve("stderr.txt");
@@ -57,6 +62,17 @@ class BoundedMemoryTest {
             throw new AssertionError("the child run did not end: " + command);
         }
         return new Outcome(process.exitValue(), lines, bytes, last, Files.readString(err));
+    }
+
+    @Test
+    void runningOutOfMemoryIsOneLineAndLeavesNoFile(@TempDir Path folder) throws Exception {
+        // 50 million pixels need 400 MB for one array; the child has 32 MiB.
+        Outcome run = runWithHeap(folder, "-Xmx32m", "synth", "--lines", "lamp-ne-i", "--from", "400nm", "--to",
+                "900nm", "--pixels", "50000000", "--temperature", "300", "--medium", "air", "--out", "big.csv");
+        assertEquals(1, run.code(), run.err());
+        assertTrue(run.err().startsWith("ritzwerk: out of memory: the job needs more than the 32 MiB"), run.err());
+        assertEquals(1, run.err().strip().split("\n").length, run.err());
+        assertTrue(!Files.exists(folder.resolve("big.csv")), "no output file");
     }
 
     @Test

@@ -66,7 +66,6 @@ class IdentificationRulesTest {
             List<Identification.SpeciesPresence> presence = result.speciesPresence();
             assertEquals(5, presence.size());
             for (Identification.SpeciesPresence p : presence) {
-                System.out.printf(java.util.Locale.ROOT, "random %d peaks: %s%n", count, p);
                 assertTrue(p.strongInRange() >= 1, p.toString());
                 assertTrue(p.presence() <= 0.1, count + " random peaks: " + p);
                 double sd = Math.sqrt(p.strongByChance() * (1 - p.strongByChance() / p.strongInRange()));
@@ -87,7 +86,6 @@ class IdentificationRulesTest {
         Scenes.Observation scene = Scenes.observe(LINES, 1e-3, 1e-12, 0.10, 0, 2026L);
         Identification result = Identifier.of(Tolerance.kSigma(5)).identify(scene.peaks(), lines);
         for (Identification.SpeciesPresence p : result.speciesPresence()) {
-            System.out.println("real scene: " + p);
             String name = p.species().notation();
             if (name.equals("H I") || name.equals("He II")) {
                 assertTrue(p.presence() >= 0.9, p.toString());
@@ -235,12 +233,12 @@ class IdentificationRulesTest {
         }
         double clearRate = (double) clearWrong / clear;
         double flaggedShare = (double) flaggedWrong / (clearWrong + flaggedWrong);
-        System.out.printf(java.util.Locale.ROOT, "crowded scenes: %d clear peaks, %d wrong (%.2f %%); %d flagged, "
-                + "%d wrong (%.1f %%); flagged peaks hold %.1f %% of the errors%n", clear, clearWrong,
+        String figures = String.format(java.util.Locale.ROOT, "crowded scenes: %d clear peaks, %d wrong (%.2f %%); "
+                + "%d flagged, %d wrong (%.1f %%); flagged peaks hold %.1f %% of the errors", clear, clearWrong,
                 100 * clearRate, flagged, flaggedWrong, 100.0 * flaggedWrong / flagged, 100 * flaggedShare);
-        assertTrue(clear > 1000, "enough clear peaks: " + clear);
-        assertTrue(flagged > 100, "a crowded scene flags peaks: " + flagged);
-        assertTrue(clearRate <= 0.01, "wrong among unflagged: " + clearRate);
-        assertTrue(flaggedShare > 0.5, "flagged share of the errors: " + flaggedShare);
+        assertTrue(clear > 1000, figures);
+        assertTrue(flagged > 100, figures);
+        assertTrue(clearRate <= 0.01, figures);
+        assertTrue(flaggedShare > 0.5, figures);
     }
 }
