@@ -127,30 +127,8 @@ class IdentifyCommandTest {
         // n_e = 2e22 m^-3. Peaks with those intensities and Voigt widths (plus the instrument's
         // lambda / R) must give back the temperature (Boltzmann plot) and the density (H-beta,
         // H-alpha Stark widths, Gigosos et al. 2003).
-        Path truth = dir.resolve("truth.csv");
-        CliTest.Run synth = CliTest.run("synth", "--species", "H I", "--from", "380 nm", "--to", "700 nm",
-                "--temperature", "12000", "--electron-density", "2e22", "--resolving-power", "5000", "--no-noise",
-                "--n-max", "9", "--truth", truth.toString(), "--out", dir.resolve("s.csv").toString());
-        assertEquals(0, synth.code(), synth.err());
-        StringBuilder peaks = new StringBuilder("# ritzwerk-peaks 1\n# id: plasma-test\n# title: synthetic\n"
-                + "# source: ritzwerk synth\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
-                + "# medium: vacuum\nposition,uncertainty,intensity,width\n");
-        for (String row : Files.readAllLines(truth)) {
-            if (row.startsWith("#") || row.startsWith("wavelength_nm")) {
-                continue;
-            }
-            String[] c = row.split(",");
-            double nm = Double.parseDouble(c[0]);
-            if (nm < 380 || nm > 700) {
-                continue;
-            }
-            double gauss = Math.hypot(Double.parseDouble(c[2]), nm / 5000);
-            double lorentz = Double.parseDouble(c[3]);
-            double voigt = 0.5346 * lorentz + Math.sqrt(0.2166 * lorentz * lorentz + gauss * gauss);
-            peaks.append(String.format(java.util.Locale.ROOT, "%.6f,0.001,%s,%.6f%n", nm, c[1], voigt));
-        }
         Path file = dir.resolve("peaks.csv");
-        Files.writeString(file, peaks);
+        Files.writeString(file, plasmaPeaks(dir, "plasma-test", "%s"));
         CliTest.Run run = CliTest.run("identify", file.toString(), "--species", "H I", "--n-max", "9", "--plasma",
                 "--resolving-power", "5000", "--format", "json");
         assertEquals(0, run.code(), run.err());
@@ -267,5 +245,40 @@ class IdentifyCommandTest {
             assertTrue(Double.parseDouble(p.group(2)) <= 0.1, p.group());
         }
         assertEquals(2, species, random20k.err());
+    }
+
+    /**
+     * A peaks file made from synth's truth at T = 12,000 K and n_e = 2e22 m^-3 (H I, 380-700 nm,
+     * R = 5000, no noise): each line's position, its counts as intensity (written with
+     * {@code intensityFormat}, e.g. "%s" exactly or "%.6g"), and its Voigt width (Olivero and
+     * Longbothum, J. Quant. Spectrosc. Radiat. Transfer 17, 233 (1977)) with the instrument's
+     * lambda / R.
+     */
+    static String plasmaPeaks(Path dir, String id, String intensityFormat) throws IOException {
+        Path truth = dir.resolve(id + "-truth.csv");
+        CliTest.Run synth = CliTest.run("synth", "--species", "H I", "--from", "380 nm", "--to", "700 nm",
+                "--temperature", "12000", "--electron-density", "2e22", "--resolving-power", "5000", "--no-noise",
+                "--n-max", "9", "--truth", truth.toString(), "--out", dir.resolve(id + "-spectrum.csv").toString());
+        assertEquals(0, synth.code(), synth.err());
+        StringBuilder peaks = new StringBuilder("# ritzwerk-peaks 1\n# id: " + id + "\n# title: synthetic\n"
+                + "# source: ritzwerk synth\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
+                + "# medium: vacuum\nposition,uncertainty,intensity,width\n");
+        for (String row : Files.readAllLines(truth)) {
+            if (row.startsWith("#") || row.startsWith("wavelength_nm")) {
+                continue;
+            }
+            String[] c = row.split(",");
+            double nm = Double.parseDouble(c[0]);
+            if (nm < 380 || nm > 700) {
+                continue;
+            }
+            double gauss = Math.hypot(Double.parseDouble(c[2]), nm / 5000);
+            double lorentz = Double.parseDouble(c[3]);
+            double voigt = 0.5346 * lorentz + Math.sqrt(0.2166 * lorentz * lorentz + gauss * gauss);
+            String intensity = intensityFormat.equals("%s") ? c[1]
+                    : String.format(java.util.Locale.ROOT, intensityFormat, Double.parseDouble(c[1]));
+            peaks.append(String.format(java.util.Locale.ROOT, "%.6f,0.001,%s,%.6f%n", nm, intensity, voigt));
+        }
+        return peaks.toString();
     }
 }

@@ -188,29 +188,8 @@ class ReadmeExamplesTest {
             // leave only rounding noise as the scatter, so the printed uncertainty would hang on
             // the last bit of the logarithms), its Voigt width (Olivero-Longbothum) with the
             // instrument's lambda / R.
-            Path truth = dir.resolve("plasma-truth.csv");
-            CliTest.Run synth = CliTest.run("synth", "--species", "H I", "--from", "380 nm", "--to", "700 nm",
-                    "--temperature", "12000", "--electron-density", "2e22", "--resolving-power", "5000", "--no-noise",
-                    "--n-max", "9", "--truth", truth.toString(), "--out", dir.resolve("plasma.csv").toString());
-            assertEquals(0, synth.code(), synth.err());
-            StringBuilder peaks = new StringBuilder("# ritzwerk-peaks 1\n# id: plasma-example\n# title: synthetic\n"
-                    + "# source: ritzwerk synth\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
-                    + "# medium: vacuum\nposition,uncertainty,intensity,width\n");
-            for (String row : Files.readAllLines(truth)) {
-                if (row.startsWith("#") || row.startsWith("wavelength_nm")) {
-                    continue;
-                }
-                String[] c = row.split(",");
-                double nm = Double.parseDouble(c[0]);
-                if (nm < 380 || nm > 700) {
-                    continue;
-                }
-                double gauss = Math.hypot(Double.parseDouble(c[2]), nm / 5000);
-                double lorentz = Double.parseDouble(c[3]);
-                double voigt = 0.5346 * lorentz + Math.sqrt(0.2166 * lorentz * lorentz + gauss * gauss);
-                peaks.append(String.format(Locale.ROOT, "%.6f,0.001,%.6g,%.6f%n", nm, Double.parseDouble(c[1]), voigt));
-            }
-            Files.writeString(dir.resolve("peaks.csv"), peaks, StandardCharsets.UTF_8);
+            Files.writeString(dir.resolve("peaks.csv"), IdentifyCommandTest.plasmaPeaks(dir, "plasma-example", "%.6g"),
+                    StandardCharsets.UTF_8);
         } else if (command.contains("sample.csv")) {
             // Another spectrum from the same invented spectrometer as the README's neon lamp.
             CliTest.Run synth = CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "350,0.14,-1.5e-6",
