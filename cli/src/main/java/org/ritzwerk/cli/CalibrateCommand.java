@@ -10,6 +10,7 @@ import java.util.concurrent.Callable;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.StrengthClass;
 import org.ritzwerk.engine.calibrate.Calibration;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
 import org.ritzwerk.engine.calibrate.Calibrator;
@@ -104,6 +105,11 @@ final class CalibrateCommand implements Callable<Integer> {
             description = "How far (pixels) a peak may lie from a line's predicted place to pair. Default: ${DEFAULT-VALUE}.")
     double tolerance;
 
+    @Option(names = "--min-strength", paramLabel = "CLASS",
+            description = {"Use only the lamp lines whose set classes them at least this strong: strong, medium",
+                "or weak (all; lines without a class are always used). For lamps whose weak lines do not show."})
+    String minStrength;
+
     @Option(names = "--min-matched", paramLabel = "FRACTION", defaultValue = "0.6",
             description = {"A solution must pair at least this fraction of the strongest peaks with lamp",
                 "lines; lower it for lamps with many lines missing from the set. Default: ${DEFAULT-VALUE}."})
@@ -179,8 +185,8 @@ final class CalibrateCommand implements Callable<Integer> {
         OptionRules rules = new OptionRules(spec);
         if (apply != null) {
             for (String option : new String[] {"--lamp", "--lines", "--medium", "--from", "--to", "--dispersion-range",
-                "--degree", "--max-degree", "--threshold", "--saturation", "--tolerance", "--min-matched", "--clip",
-                "--plot", "--format", "--data"}) {
+                "--degree", "--max-degree", "--threshold", "--saturation", "--tolerance", "--min-matched", "--min-strength",
+                "--clip", "--plot", "--format", "--data"}) {
                 rules.refuseUnless(option, false, "with --apply (the saved solution is applied as it is; "
                         + "--out is the only option --apply takes)");
             }
@@ -290,7 +296,21 @@ final class CalibrateCommand implements Callable<Integer> {
         for (String set : lineSets) {
             lists.add(LineSets.load(data.context(), set, "lamp set"));
         }
-        return LampSet.of(lists, solutionMedium);
+        LampSet lamp = LampSet.of(lists, solutionMedium);
+        if (minStrength == null) {
+            return lamp;
+        }
+        StrengthClass weakest;
+        try {
+            weakest = StrengthClass.fromId(minStrength.strip().toLowerCase(java.util.Locale.ROOT));
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException("--min-strength: " + e.getMessage(), e);
+        }
+        try {
+            return lamp.atLeast(weakest);
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException("--min-strength: " + e.getMessage(), e);
+        }
     }
 
     private void report(SpectrumFiles.Spectrum spectrum, Calibration calibration) {

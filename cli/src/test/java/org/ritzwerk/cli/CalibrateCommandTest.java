@@ -216,6 +216,11 @@ class CalibrateCommandTest {
         assertTrue(saturated.err().contains("flat.csv"), saturated.err());
         // No lamp at all.
         assertTrue(CliTest.run("calibrate", spectrum.toString()).err().contains("give the lamp"));
+        CliTest.Run strength = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--min-strength",
+                "bright");
+        assertEquals(2, strength.code());
+        assertTrue(strength.err().contains("--min-strength: unknown strength 'bright'; known: strong, medium, weak"),
+                strength.err());
         assertTrue(CliTest.run("calibrate", spectrum.toString(), "--lamp", "Xe II").err()
                 .contains("no built-in lamp set for Xe II"));
     }

@@ -45,6 +45,27 @@ class LampSetsTest {
     }
 
     @Test
+    void aLampSetNarrowsToItsStrongerLines() {
+        LineList neon = DataContext.builtIn().lampLines(org.ritzwerk.atom.Species.parse("Ne I"));
+        int strong = 0;
+        int medium = 0;
+        for (int i = 0; i < neon.size(); i++) {
+            strong += neon.strength(i) == org.ritzwerk.data.StrengthClass.STRONG ? 1 : 0;
+            medium += neon.strength(i) == org.ritzwerk.data.StrengthClass.MEDIUM ? 1 : 0;
+        }
+        org.ritzwerk.engine.calibrate.LampSet all = org.ritzwerk.engine.calibrate.LampSet.of(java.util.List.of(neon),
+                Medium.air());
+        org.ritzwerk.engine.calibrate.LampSet strongOnly = all.atLeast(org.ritzwerk.data.StrengthClass.STRONG);
+        assertTrue(strong > 0 && strong < neon.size(), "strong rows " + strong);
+        assertEquals(strong, strongOnly.size());
+        assertEquals(strong + medium, all.atLeast(org.ritzwerk.data.StrengthClass.MEDIUM).size());
+        assertEquals(neon.size(), all.atLeast(org.ritzwerk.data.StrengthClass.WEAK).size());
+        for (int i = 0; i < strongOnly.size(); i++) {
+            assertEquals(org.ritzwerk.data.StrengthClass.STRONG, strongOnly.strength(i), strongOnly.label(i));
+        }
+    }
+
+    @Test
     void everyLampSetsElementHasNuclearDataSoItCanBeSynthesised() {
         // A synthetic lamp spectrum needs the emitter's mass (Doppler width): Hg-202 (bodr 10),
         // Ne-20, Ar-40, Kr-84, Xe-132 (AME2020) are the defaults.

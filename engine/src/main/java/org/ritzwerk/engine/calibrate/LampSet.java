@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Objects;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.StrengthClass;
 import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
@@ -27,12 +28,16 @@ public final class LampSet {
     private final List<String> labels;
     private final Species[] species;
     private final List<String> setIds;
+    /** Per line, its list's strength class, or null when the list gives none. */
+    private final StrengthClass[] strength;
 
-    private LampSet(LampLines lines, List<String> labels, Species[] species, List<String> setIds) {
+    private LampSet(LampLines lines, List<String> labels, Species[] species, List<String> setIds,
+            StrengthClass[] strength) {
         this.lines = lines;
         this.labels = labels;
         this.species = species;
         this.setIds = setIds;
+        this.strength = strength;
     }
 
     /**
@@ -57,6 +62,7 @@ public final class LampSet {
         boolean allSigmas = true;
         List<String> labels = new ArrayList<>(total);
         Species[] species = new Species[total];
+        StrengthClass[] strength = new StrengthClass[total];
         List<String> ids = new ArrayList<>();
         int k = 0;
         for (LineList list : lists) {
@@ -70,6 +76,7 @@ public final class LampSet {
                 allSigmas &= !Double.isNaN(u);
                 sigma[k] = Math.abs(converted[i] / listed) * u;
                 species[k] = list.species(i);
+                strength[k] = list.strength(i);
                 labels.add(list.species(i).notation() + " " + listed + " " + list.unit().symbol()
                         + (list.medium() == null ? "" : " " + list.medium().label()));
             }
@@ -78,7 +85,60 @@ public final class LampSet {
             throw new IllegalArgumentException("the lamp's line lists " + ids + " hold no lines");
         }
         return new LampSet(LampLines.of(nm, intensity, allSigmas ? sigma : null, medium), List.copyOf(labels),
-                species, List.copyOf(ids));
+                species, List.copyOf(ids), strength);
+    }
+
+    /**
+     * The lines whose list classes them at least as strong as {@code weakest} (strong, then
+     * medium, then weak), for a lamp whose weak lines are not seen or not wanted. Lines whose list
+     * gives no class are kept (nothing says they are weak).
+     *
+     * @param weakest the weakest class kept
+     * @return the selection
+     * @throws IllegalArgumentException when no line is left (naming the sets and the class)
+     */
+    public LampSet atLeast(StrengthClass weakest) {
+        Objects.requireNonNull(weakest, "weakest");
+        boolean[] keep = new boolean[size()];
+        int kept = 0;
+        for (int i = 0; i < keep.length; i++) {
+            keep[i] = strength[i] == null || strength[i].ordinal() <= weakest.ordinal();
+            kept += keep[i] ? 1 : 0;
+        }
+        if (kept == 0) {
+            throw new IllegalArgumentException("no line of the lamp sets " + setIds + " is " + weakest.id()
+                    + (weakest == StrengthClass.STRONG ? "" : " or stronger"));
+        }
+        double[] nm = new double[kept];
+        double[] intensity = new double[kept];
+        double[] sigma = lines.sigmasGiven() ? new double[kept] : null;
+        List<String> keptLabels = new ArrayList<>(kept);
+        Species[] keptSpecies = new Species[kept];
+        StrengthClass[] keptStrength = new StrengthClass[kept];
+        int k = 0;
+        for (int i = 0; i < keep.length; i++) {
+            if (keep[i]) {
+                nm[k] = lines.wavelength(i);
+                intensity[k] = lines.intensity(i);
+                if (sigma != null) {
+                    sigma[k] = lines.sigma(i);
+                }
+                keptLabels.add(labels.get(i));
+                keptSpecies[k] = species[i];
+                keptStrength[k] = strength[i];
+                k++;
+            }
+        }
+        return new LampSet(LampLines.of(nm, intensity, sigma, lines.medium()), List.copyOf(keptLabels), keptSpecies,
+                setIds, keptStrength);
+    }
+
+    /**
+     * @param i a line index, 0 to {@link #size()} - 1
+     * @return the strength class its list gives, or null when none
+     */
+    public StrengthClass strength(int i) {
+        return strength[i];
     }
 
     /** @return the lines as the matcher and the fit take them */
