@@ -30,8 +30,12 @@ import org.ritzwerk.medium.Medium;
  * n &gt;= k + 2. AICc is preferred to BIC for the small samples of lamp calibrations (tens of
  * lines), where BIC tends to underfit (Burnham and Anderson, sec. 6.4).
  *
- * <p><b>Clipping.</b> After each fit the normalised residuals z_i = r_i / s_i are scaled by
- * t = max(1, 1.4826 median |z_i|) (robust, so outliers do not hide themselves); the single worst
+ * <p><b>Clipping.</b> After each fit the normalised residuals z_i = r_i / s_i of the used pairs
+ * are divided by sqrt(1 - h_i), h_i = w_i phi_i^T (A^T W A)^-1 phi_i being the pair's leverage
+ * (studentized residuals; R. D. Cook and S. Weisberg, Residuals and Influence in Regression,
+ * Chapman and Hall 1982; common practice), so a lone line at one end that the polynomial bends to
+ * take is judged by how far off it really is; they are then scaled by
+ * t = max(1, 1.4826 median |r_i / s_i|) (robust, so outliers do not hide themselves); the single worst
  * pair with |z| &gt; k t is rejected and the fit repeated (the degree is chosen afresh when
  * automatic), at most maxIterations times, and never below k + 2 used pairs. Rejecting one pair
  * per pass keeps a gross outlier from dragging good pairs out with it. Rejected pairs stay in the
@@ -275,11 +279,19 @@ public final class DispersionFit {
         double[] z = new double[n];
         double[] absolute = new double[n];
         int m = 0;
+        double[][] covariance = pass.solution.covariance();
         for (int i = 0; i < n; i++) {
             z[i] = (wavelengthNm[i] - PolynomialLeastSquares.evaluate(pass.solution.coefficients(), x[i]))
                     * Math.sqrt(pass.weight[i]);
             if (use[i]) {
                 absolute[m++] = Math.abs(z[i]);
+                // A used pair pulls the fit towards itself, the more so the fewer pairs are near it
+                // (its leverage h = w phi^T (A^T W A)^-1 phi): judged by its residual divided by
+                // sqrt(1 - h), a lone end line the polynomial bends to take is seen as far off as
+                // it is (studentized residual; common practice, e.g. R. D. Cook and S. Weisberg,
+                // Residuals and Influence in Regression, 1982).
+                double leverage = pass.weight[i] * quadraticForm(covariance, x[i]);
+                z[i] /= Math.sqrt(Math.max(1e-6, 1 - leverage));
             }
         }
         double scale = Math.max(1, Baseline.MAD_TO_SIGMA * Baseline.median(absolute, m));
@@ -292,6 +304,24 @@ public final class DispersionFit {
             }
         }
         return worst;
+    }
+
+    /** phi(x)^T C phi(x) with phi(x) = (1, x, x^2, ...). */
+    private static double quadraticForm(double[][] c, double x) {
+        int k = c.length;
+        double[] phi = new double[k];
+        double power = 1;
+        for (int j = 0; j < k; j++) {
+            phi[j] = power;
+            power *= x;
+        }
+        double sum = 0;
+        for (int r = 0; r < k; r++) {
+            for (int col = 0; col < k; col++) {
+                sum += phi[r] * c[r][col] * phi[col];
+            }
+        }
+        return sum;
     }
 
     private static void check(double[] pixel, double[] pixelSigma, double[] wavelengthNm, double[] wavelengthSigma) {

@@ -14,9 +14,9 @@ import org.ritzwerk.engine.calibrate.Calibrator;
  *
  * <p>The rule that must always hold: no run is accepted with a wavelength error above 1 pixel
  * anywhere between its first and last fitted line; the job refuses instead. The share solved to
- * better than 0.1 pixel is held at what the matcher reaches today: 22 of these 30; in the full
- * sweep of seeds 1 to 100 (run {@link CalibrationSweep#main} with {@code 1 100 0.6}) 80 solved, 9
- * refused, 11 accepted with 0.1 to 1 pixel error (a blended or edge line pulling the cubic), none
+ * better than 0.1 pixel is held at what the matcher reaches today: 23 of these 30; in the full
+ * sweep of seeds 1 to 100 (run {@link CalibrationSweep#main} with {@code 1 100 0.6}) 82 solved, 9
+ * refused, 9 accepted with 0.1 to 1 pixel error (a blended or edge line pulling the cubic), none
  * worse. The goal is 99 % solved.
  */
 class CalibrationSweepTest {
@@ -25,7 +25,7 @@ class CalibrationSweepTest {
     void curvedDispersionsAreSolvedOrRefusedNeverWrong() {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6, Calibrator.defaults());
         assertEquals(0, outcome.wrong(), outcome.toString());
-        assertTrue(outcome.solved() >= 22, outcome.toString());
+        assertTrue(outcome.solved() >= 23, outcome.toString());
     }
 
     @Test
