@@ -19,13 +19,14 @@ public final class CalibrationSweep {
 
     /** What happened in one sweep. */
     public record Outcome(int runs, int solved, int refused, int imprecise, int wrong, double worstSolvedError,
-            List<String> notSolved) {
+            double worstImpreciseSigmas, List<String> notSolved) {
 
         @Override
         public String toString() {
             return String.format(Locale.ROOT, "%d runs: %d solved (worst %.3f px), %d refused, %d accepted with "
-                    + "0.1-1 px error, %d accepted with > 1 px error%n  %s", runs, solved, worstSolvedError, refused,
-                    imprecise, wrong, String.join("\n  ", notSolved));
+                    + "0.1-1 px error (at most %.1f stated standard uncertainties), %d accepted with > 1 px error"
+                    + "%n  %s", runs, solved, worstSolvedError, refused, imprecise, worstImpreciseSigmas, wrong,
+                    String.join("\n  ", notSolved));
         }
     }
 
@@ -59,6 +60,7 @@ public final class CalibrationSweep {
         int imprecise = 0;
         int wrong = 0;
         double worst = 0;
+        double worstSigmas = 0;
         List<String> notSolved = new ArrayList<>();
         int planned = runs;
         for (long seed = firstSeed; seed < firstSeed + planned; seed++) {
@@ -90,6 +92,8 @@ public final class CalibrationSweep {
             } else {
                 if (error < 1) {
                     imprecise++;
+                    worstSigmas = Math.max(worstSigmas, largestErrorInSigmas(exposure, calibration.solution(),
+                            calibration));
                 } else {
                     wrong++;
                 }
@@ -97,7 +101,7 @@ public final class CalibrationSweep {
                         exposure, error, calibration.solution().usedCount(), calibration.solution().rmsPixels()));
             }
         }
-        return new Outcome(runs, solved, refused, imprecise, wrong, worst, notSolved);
+        return new Outcome(runs, solved, refused, imprecise, wrong, worst, worstSigmas, notSolved);
     }
 
     /** The largest error in pixels between the lowest and highest pixel of the fitted pairs. */
@@ -109,6 +113,20 @@ public final class CalibrationSweep {
             double p = from + (to - from) * s / 200.0;
             double error = (solution.wavelengthAt(p) - exposure.truthAt(p)) / exposure.truthDispersionAt(p);
             worst = Math.max(worst, Math.abs(error));
+        }
+        return worst;
+    }
+
+    /** The largest error over the solution's own stated standard uncertainty, same range. */
+    static double largestErrorInSigmas(LampExposures.Exposure exposure, DispersionSolution solution,
+            Calibration calibration) {
+        double from = calibration.lowestUsedPixel();
+        double to = calibration.highestUsedPixel();
+        double worst = 0;
+        for (int s = 0; s <= 200; s++) {
+            double p = from + (to - from) * s / 200.0;
+            worst = Math.max(worst, Math.abs(solution.wavelengthAt(p) - exposure.truthAt(p))
+                    / solution.wavelengthSigmaAt(p));
         }
         return worst;
     }
