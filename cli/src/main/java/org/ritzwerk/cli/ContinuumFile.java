@@ -25,7 +25,7 @@ final class ContinuumFile {
      * @param hi   the last pixel edge, nm; the file must reach it
      * @return the density as a function of wavelength in nm, divided by its largest value
      * @throws IOException when the file cannot be read
-     * @throws IllegalArgumentException naming the file, line and field of the first bad row
+     * @throws IllegalArgumentException naming the file, line and field of every bad row
      */
     static DoubleUnaryOperator read(Path file, double lo, double hi) throws IOException {
         List<String> text;
@@ -38,6 +38,8 @@ final class ContinuumFile {
         double[] y = new double[text.size()];
         int n = 0;
         boolean header = false;
+        // Every bad row is reported, not only the first.
+        List<String> problems = new java.util.ArrayList<>();
         for (int i = 0; i < text.size(); i++) {
             String line = text.get(i).strip();
             String where = file + ":" + (i + 1) + ": ";
@@ -54,22 +56,36 @@ final class ContinuumFile {
             }
             String[] cells = line.split(",", -1);
             if (cells.length != 2) {
-                throw new IllegalArgumentException(where + "expected 2 fields (wavelength_nm,density), got "
-                        + cells.length);
+                problems.add(where + "expected 2 fields (wavelength_nm,density), got " + cells.length);
+                continue;
             }
-            x[n] = number(cells[0], where + "wavelength_nm");
-            y[n] = number(cells[1], where + "density");
-            if (y[n] < 0) {
-                throw new IllegalArgumentException(where + "density must not be negative, got " + cells[1].strip());
+            int before = problems.size();
+            double wavelength = number(cells[0], where + "wavelength_nm", problems);
+            double density = number(cells[1], where + "density", problems);
+            if (problems.size() > before) {
+                continue;
             }
-            if (!(x[n] > 0)) {
-                throw new IllegalArgumentException(where + "wavelength_nm must be positive, got " + cells[0].strip());
+            if (density < 0) {
+                problems.add(where + "density must not be negative, got " + cells[1].strip());
+                continue;
             }
-            if (n > 0 && !(x[n] > x[n - 1])) {
-                throw new IllegalArgumentException(where + "wavelength_nm must rise from row to row, got "
-                        + cells[0].strip() + " after " + x[n - 1]);
+            if (!(wavelength > 0)) {
+                problems.add(where + "wavelength_nm must be positive, got " + cells[0].strip());
+                continue;
             }
+            if (n > 0 && !(wavelength > x[n - 1])) {
+                problems.add(where + "wavelength_nm must rise from row to row, got " + cells[0].strip() + " after "
+                        + x[n - 1]);
+                continue;
+            }
+            x[n] = wavelength;
+            y[n] = density;
             n++;
+        }
+        if (!problems.isEmpty()) {
+            throw new IllegalArgumentException(problems.size() == 1 ? problems.get(0)
+                    : problems.size() + " problems in " + file + " (--continuum-file):\n  " + String.join("\n  ",
+                            problems));
         }
         if (n < 2) {
             throw new IllegalArgumentException(file + ": needs at least two rows after the header, found " + n);
@@ -112,7 +128,8 @@ final class ContinuumFile {
         };
     }
 
-    private static double number(String cell, String where) {
+    /** The cell as a finite number, or NaN after adding a problem naming where it is. */
+    private static double number(String cell, String where, List<String> problems) {
         try {
             double v = Double.parseDouble(cell.strip());
             if (Double.isFinite(v)) {
@@ -121,6 +138,7 @@ final class ContinuumFile {
         } catch (NumberFormatException e) {
             // reported below
         }
-        throw new IllegalArgumentException(where + " must be a finite number, got '" + cell.strip() + "'");
+        problems.add(where + " must be a finite number, got '" + cell.strip() + "'");
+        return Double.NaN;
     }
 }

@@ -192,6 +192,16 @@ class SynthCommandTest {
                 "--temperature", "8000", "--continuum-file", shape.toString());
         assertEquals(2, bad.code());
         assertTrue(bad.err().contains("shape.csv:3: density must be a finite number, got 'x'"), bad.err());
+        // Every bad row is named, not only the first.
+        Files.writeString(shape, "wavelength_nm,density\n600,0\n650,x\n660,-1\n670\n680,1\n");
+        CliTest.Run several = CliTest.run("synth", "--species", "H I", "--from", "640 nm", "--to", "700 nm",
+                "--temperature", "8000", "--continuum-file", shape.toString());
+        assertEquals(2, several.code());
+        assertTrue(several.err().contains("3 problems in"), several.err());
+        assertTrue(several.err().contains("shape.csv:3: density must be a finite number, got 'x'"), several.err());
+        assertTrue(several.err().contains("shape.csv:4: density must not be negative, got -1"), several.err());
+        assertTrue(several.err().contains("shape.csv:5: expected 2 fields (wavelength_nm,density), got 1"),
+                several.err());
         Files.writeString(shape, "wavelength_nm,density\n600,0\n650,1\n");
         CliTest.Run shortFile = CliTest.run("synth", "--species", "H I", "--from", "640 nm", "--to", "700 nm",
                 "--temperature", "8000", "--continuum-file", shape.toString());
