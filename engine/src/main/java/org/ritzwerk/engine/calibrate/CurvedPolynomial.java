@@ -39,69 +39,11 @@ final class CurvedPolynomial {
     }
 
     /**
-     * Fits the first {@code n} points.
+     * Starts a fit with no points: {@link #add} and {@link #remove} points, then {@link #solveNow}
+     * (again after every change; the normal equations are updated, not rebuilt).
      *
-     * @param x          scaled abscissae
-     * @param y          ordinates
-     * @param n          how many points to use
      * @param noise      standard deviation of y, &gt; 0
      * @param priorSigma s_m for m = 0 .. D; entries 0 and 1 are ignored (flat), others &gt; 0
-     * @return whether the fit succeeded (false when a_0 and a_1 are not determined: fewer than two
-     *         distinct abscissae)
-     */
-    boolean fit(double[] x, double[] y, int n, double noise, double[] priorSigma) {
-        double w = 1 / (noise * noise);
-        for (int r = 0; r < terms; r++) {
-            java.util.Arrays.fill(precision[r], 0);
-            rhs[r] = 0;
-        }
-        for (int i = 0; i < n; i++) {
-            double power = 1;
-            for (int r = 0; r < terms; r++) {
-                phi[r] = power;
-                power *= x[i];
-            }
-            for (int r = 0; r < terms; r++) {
-                rhs[r] += w * phi[r] * y[i];
-                for (int c = 0; c <= r; c++) {
-                    precision[r][c] += w * phi[r] * phi[c];
-                }
-            }
-        }
-        for (int m = 2; m < terms; m++) {
-            precision[m][m] += 1 / (priorSigma[m] * priorSigma[m]);
-        }
-        return factorAndSolve();
-    }
-
-    private boolean factorAndSolve() {
-        // Cholesky: precision = L L^T, lower triangle in factor.
-        for (int r = 0; r < terms; r++) {
-            for (int c = 0; c <= r; c++) {
-                double sum = precision[r][c];
-                for (int k = 0; k < c; k++) {
-                    sum -= factor[r][k] * factor[c][k];
-                }
-                if (r == c) {
-                    if (!(sum > 1e-12 * Math.max(1e-300, precision[r][r]))) {
-                        return false;
-                    }
-                    factor[r][r] = Math.sqrt(sum);
-                } else {
-                    factor[r][c] = sum / factor[c][c];
-                }
-            }
-        }
-        solve(rhs, mean);
-        return true;
-    }
-
-    /**
-     * Starts an incremental fit with no points: {@link #add} and {@link #remove} points, then
-     * {@link #solveNow}.
-     *
-     * @param noise      standard deviation of y, &gt; 0
-     * @param priorSigma s_m as in {@link #fit}
      */
     void reset(double noise, double[] priorSigma) {
         weight = 1 / (noise * noise);
@@ -141,6 +83,29 @@ final class CurvedPolynomial {
     /** @return whether the incremental fit's points determine a_0 and a_1 (then solved) */
     boolean solveNow() {
         return factorAndSolve();
+    }
+
+    /** Cholesky factorisation of the precision matrix, then the posterior mean. */
+    private boolean factorAndSolve() {
+        // Cholesky: precision = L L^T, lower triangle in factor.
+        for (int r = 0; r < terms; r++) {
+            for (int c = 0; c <= r; c++) {
+                double sum = precision[r][c];
+                for (int k = 0; k < c; k++) {
+                    sum -= factor[r][k] * factor[c][k];
+                }
+                if (r == c) {
+                    if (!(sum > 1e-12 * Math.max(1e-300, precision[r][r]))) {
+                        return false;
+                    }
+                    factor[r][r] = Math.sqrt(sum);
+                } else {
+                    factor[r][c] = sum / factor[c][c];
+                }
+            }
+        }
+        solve(rhs, mean);
+        return true;
     }
 
     /** Solves L L^T v = b. */

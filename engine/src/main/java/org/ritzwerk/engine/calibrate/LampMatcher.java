@@ -476,7 +476,7 @@ public final class LampMatcher {
      * score (see the class comment), how many strong peaks lie within the precise tolerance and
      * how many chance alone would put there, and the direction.
      */
-    record Candidate(double[] coefficients, int strongMatched, int allMatched, double score, int preciseMatched,
+    record Candidate(double[] coefficients, int strongMatched, double score, int preciseMatched,
             double preciseTolerance, double chance, int sign) {
     }
 
@@ -537,8 +537,6 @@ public final class LampMatcher {
         private final Set<GrowthKey> started = new HashSet<>();
         private int[] owner = new int[0];
         private double[] distance = new double[0];
-        private final double[] fitX;
-        private final double[] fitY;
 
         Search(double[] centre, double[] intensity, int pixels, LampLines lines, Prior searchPrior) {
             this.centre = centre;
@@ -577,8 +575,6 @@ public final class LampMatcher {
             for (int d = 2; d <= degree; d++) {
                 priorSigma[d] = maxCurvature * (d == 2 ? 0.25 : d == 3 ? 0.08 : 0.025);
             }
-            fitX = new double[Math.max(centre.length, 3)];
-            fitY = new double[Math.max(centre.length, 3)];
         }
 
         Candidate run() {
@@ -706,7 +702,7 @@ public final class LampMatcher {
             }
             double slopeGuess = (windowNm[seedLine[2]] - windowNm[seedLine[0]])
                     / ((strongPixel[seedPeak[2]] - strongPixel[seedPeak[0]]) / half);
-            if (!startFit(strongPixel, lineOf, slopeGuess)) {
+            if (!fitOn(strongPixel, lineOf, slopeGuess)) {
                 return null;
             }
             int pairs = extend(strongPixel, lineOf, sign, true);
@@ -889,11 +885,11 @@ public final class LampMatcher {
         }
 
         /**
-         * Starts an incremental fit of the pairs of the peaks at peakPixel, its scatter and
-         * curvature prior scaled by the slope a_1 given (kept for the whole growth); false when
-         * the fit fails.
+         * Fits the pairs of the peaks at peakPixel, its scatter and curvature prior scaled by the
+         * slope a_1 given; the fit stays open for {@link #extend} to add and remove pairs with the
+         * same scaling. False when the fit fails.
          */
-        private boolean startFit(double[] peakPixel, int[] lineOf, double slope) {
+        private boolean fitOn(double[] peakPixel, int[] lineOf, double slope) {
             double a1 = Math.abs(slope);
             if (!(a1 > 0) || Double.isInfinite(a1)) {
                 return false;
@@ -913,28 +909,6 @@ public final class LampMatcher {
                 sigma[d] *= a1;
             }
             return sigma;
-        }
-
-        /** Fits the pairs of the peaks at peakPixel; false when the fit fails. */
-        private boolean fitOn(double[] peakPixel, int[] lineOf, double slope) {
-            int m = 0;
-            for (int k = 0; k < lineOf.length; k++) {
-                if (lineOf[k] >= 0) {
-                    fitX[m] = (peakPixel[k] - mid) / half;
-                    fitY[m] = windowNm[lineOf[k]];
-                    m++;
-                }
-            }
-            return fitPairs(m, slope);
-        }
-
-        /** Fits the first m of fitX/fitY with the curvature prior scaled by the slope a_1 (scaled pixel). */
-        private boolean fitPairs(int m, double slope) {
-            double a1 = Math.abs(slope);
-            if (!(a1 > 0) || Double.isInfinite(a1)) {
-                return false;
-            }
-            return polynomial.fit(fitX, fitY, m, scatter() * a1 / half, scaledPrior(a1));
         }
 
         /**
@@ -965,12 +939,10 @@ public final class LampMatcher {
                     return null;
                 }
             }
-            double scatter = tolerance / 6;
+            double scatter = scatter();
             double score = 0;
-            int all = 0;
             for (int k = 0; k < centre.length; k++) {
                 if (matched[k] >= 0) {
-                    all++;
                     double x = (centre[k] - mid) / half;
                     double slope = Math.abs(PolynomialLeastSquares.derivative(a, x) / half);
                     double r = residualPixels(a, centre[k], windowNm[matched[k]]) / scatter;
@@ -980,11 +952,11 @@ public final class LampMatcher {
                     score += Math.max(0, gain);
                 }
             }
-            return measure(a, sign, score, all);
+            return measure(a, sign, score);
         }
 
         /** The strong-peak figures of a polynomial, and its chance expectation, as a candidate. */
-        private Candidate measure(double[] a, int sign, double score, int all) {
+        private Candidate measure(double[] a, int sign, double score) {
             int[] strongLineOf = new int[strongPixel.length];
             int strongMatched = assign(a, strongPixel, strongLineOf);
             // Chance, judged over every peak at the precision the pairs reach: the peaks within
@@ -1014,7 +986,7 @@ public final class LampMatcher {
                 double slope = Math.abs(PolynomialLeastSquares.derivative(a, x) / half);
                 chance += Math.min(1, 2 * precise * lineDensity(PolynomialLeastSquares.evaluate(a, x), slope));
             }
-            return new Candidate(a, strongMatched, all, score, preciseMatched, precise, chance, sign);
+            return new Candidate(a, strongMatched, score, preciseMatched, precise, chance, sign);
         }
 
         /**
@@ -1145,7 +1117,7 @@ public final class LampMatcher {
                 sortedPixel[i] = centre[byPixel[i]];
                 sortedLineOf[i] = matched[byPixel[i]];
             }
-            if (startFit(sortedPixel, sortedLineOf, a[1]) && extend(sortedPixel, sortedLineOf, best.sign, false) > 0
+            if (fitOn(sortedPixel, sortedLineOf, a[1]) && extend(sortedPixel, sortedLineOf, best.sign, false) > 0
                     && fitOn(sortedPixel, sortedLineOf, polynomial.slope())
                     && withinPrior(polynomial.coefficients(), best.sign)) {
                 a = polynomial.coefficients();
@@ -1163,8 +1135,8 @@ public final class LampMatcher {
                 }
                 a = polynomial.coefficients();
             }
-            int all = assign(a, centre, matched);
-            Candidate measured = measure(a, best.sign, best.score, all);
+            assign(a, centre, matched);
+            Candidate measured = measure(a, best.sign, best.score);
             int[] order = sortBy(indicesOf(matched), k -> centre[k]);
             int size = order.length;
             int[] peakIndex = new int[size];
