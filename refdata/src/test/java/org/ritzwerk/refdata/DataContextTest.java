@@ -184,10 +184,7 @@ class DataContextTest {
 
     @Test
     void aUserQuantumDefectFileChangesRydbergLevels(@TempDir Path dir) throws IOException {
-        String builtInText;
-        try (InputStream in = RydbergData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
-            builtInText = new String(in.readAllBytes(), StandardCharsets.UTF_8);
-        }
+        String builtInText = builtInRb87Defects();
         assertTrue(builtInText.contains("\n0,1/2,3.1311807,"));
         Path file = dir.resolve("my-rb-87.csv");
         // Another id, and an s-series d0 larger by 0.01 (invented for the test); it names the built-in levels.
@@ -210,10 +207,7 @@ class DataContextTest {
 
     @Test
     void aUserQuantumDefectFileMustNameALevelsSetThatExists(@TempDir Path dir) throws IOException {
-        String text;
-        try (InputStream in = RydbergData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
-            text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
-        }
+        String text = builtInRb87Defects();
         Path file = dir.resolve("my-rb-87.csv");
         Files.writeString(file, text.replace("# id: quantum-defects-rb-87", "# id: my-rb-87")
                 .replace("# levels: levels-rb-87", "# levels: my-missing-levels"), StandardCharsets.UTF_8);
@@ -347,10 +341,7 @@ class DataContextTest {
 
     @Test
     void aQuantumDefectFileForAnIsotopeWithoutNuclearDataIsRefused(@TempDir Path dir) throws IOException {
-        String text;
-        try (InputStream in = RydbergData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
-            text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
-        }
+        String text = builtInRb87Defects();
         Path file = dir.resolve("rb-84.csv");
         Files.writeString(file, text.replace("# species: Rb-87 I", "# species: Rb-84 I"), StandardCharsets.UTF_8);
         DataFileException e = assertThrows(DataFileException.class, () -> DataContext.builtIn().withUserFile(file));
@@ -371,5 +362,12 @@ class DataContextTest {
             pool.shutdown();
         }
         assertTrue(DataContext.builtIn().alkaliAtom(RB87) != context.alkaliAtom(RB87), "no global cache");
+    }
+
+    /** The built-in Rb-87 quantum-defect file's text, to edit into a user's file. */
+    private static String builtInRb87Defects() throws IOException {
+        try (InputStream in = RydbergData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
+            return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        }
     }
 }
