@@ -300,14 +300,8 @@ final class CalibrateCommand implements Callable<Integer> {
         if (minStrength == null) {
             return lamp;
         }
-        StrengthClass weakest;
         try {
-            weakest = StrengthClass.fromId(minStrength.strip().toLowerCase(java.util.Locale.ROOT));
-        } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException("--min-strength: " + e.getMessage(), e);
-        }
-        try {
-            return lamp.atLeast(weakest);
+            return lamp.atLeast(StrengthClass.fromId(minStrength.strip().toLowerCase(java.util.Locale.ROOT)));
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException("--min-strength: " + e.getMessage(), e);
         }
@@ -341,10 +335,9 @@ final class CalibrateCommand implements Callable<Integer> {
         LampMatch saturatedPairs = calibration.saturatedPairs();
         for (int i = 0; i < saturatedPairs.size(); i++) {
             double p = saturatedPairs.pixel(i);
-            double residualNm = saturatedPairs.wavelength(i) - solution.wavelengthAt(p);
             w.printf(Locale.ROOT, "%8.3f %8.3f %-28s %14.5f %11.5f %9.4f %s%n", p, saturatedPairs.pixelSigma(i),
-                    calibration.saturatedPairLabel(i), solution.wavelengthAt(p), residualNm,
-                    residualNm / Math.abs(solution.dispersionAt(p)), "saturated, not fitted");
+                    calibration.saturatedPairLabel(i), solution.wavelengthAt(p), calibration.saturatedResidualNm(i),
+                    calibration.saturatedResidualPixels(i), "saturated, not fitted");
         }
         w.println();
         w.printf(Locale.ROOT, "%10s %14s %12s %12s%n", "pixel", "wavelength nm", "+- nm", "nm/pixel");
@@ -391,10 +384,9 @@ final class CalibrateCommand implements Callable<Integer> {
         LampMatch saturatedPairs = calibration.saturatedPairs();
         for (int i = 0; i < saturatedPairs.size(); i++) {
             double p = saturatedPairs.pixel(i);
-            double residualNm = saturatedPairs.wavelength(i) - solution.wavelengthAt(p);
             table.add(p, saturatedPairs.pixelSigma(i), calibration.saturatedPairLabel(i), saturatedPairs.wavelength(i),
-                    solution.wavelengthAt(p), residualNm, residualNm / Math.abs(solution.dispersionAt(p)), "false",
-                    "saturated");
+                    solution.wavelengthAt(p), calibration.saturatedResidualNm(i), calibration.saturatedResidualPixels(i),
+                    "false", "saturated");
         }
         table.finish();
     }

@@ -79,6 +79,22 @@ public final class Calibration {
         return problem.lamp().label(saturatedPairs.lineIndex(i));
     }
 
+    /**
+     * @param i a pair of {@link #saturatedPairs()}
+     * @return its line's wavelength less the solution's at its peak, nm (it took no part in the fit)
+     */
+    public double saturatedResidualNm(int i) {
+        return saturatedPairs.wavelength(i) - solution.wavelengthAt(saturatedPairs.pixel(i));
+    }
+
+    /**
+     * @param i a pair of {@link #saturatedPairs()}
+     * @return {@link #saturatedResidualNm} in pixels, at the solution's local dispersion
+     */
+    public double saturatedResidualPixels(int i) {
+        return saturatedResidualNm(i) / Math.abs(solution.dispersionAt(saturatedPairs.pixel(i)));
+    }
+
     /** @return the fitted pixel-to-wavelength solution */
     public DispersionSolution solution() {
         return solution;

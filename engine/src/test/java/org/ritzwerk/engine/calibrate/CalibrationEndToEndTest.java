@@ -148,6 +148,9 @@ class CalibrationEndToEndTest {
         assertTrue(left.size() >= 1, "saturated pairs " + left.size());
         for (int i = 0; i < left.size(); i++) {
             assertTrue(calibration.peaks().has(left.peakIndex(i), PeakFlag.SATURATED));
+            // Paired within the 3-pixel tolerance, judged against the solution it took no part in.
+            assertTrue(Math.abs(calibration.saturatedResidualPixels(i)) < Calibrator.DEFAULT_TOLERANCE,
+                    "saturated pair " + i + ": " + calibration.saturatedResidualPixels(i) + " px");
         }
         LampMatch fitted = calibration.match();
         for (int i = 0; i < fitted.size(); i++) {
