@@ -13,7 +13,7 @@ public final class QuantityParseException extends RitzwerkException {
     public static final String EMPTY = "quantity.empty";
     /** Code: no number where the value should start. */
     public static final String NO_NUMBER = "quantity.no-number";
-    /** Code: NaN, infinity, or a number too large for a double. */
+    /** Code: NaN, infinity, or a number too large (or, not zero, too small) for a double in SI units. */
     public static final String NOT_FINITE = "quantity.not-finite";
     /** Code: a negative value. */
     public static final String NEGATIVE = "quantity.negative";

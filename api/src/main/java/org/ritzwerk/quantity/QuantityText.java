@@ -322,6 +322,11 @@ public final class QuantityText {
                 pos = numberColumn;
                 throw fail(QuantityParseException.NOT_FINITE, "the value is too large in SI units");
             }
+            if (value != 0 && unit.toSi(value) == 0) {
+                pos = numberColumn;
+                throw fail(QuantityParseException.NOT_FINITE, DecimalText.shortest(value) + " " + unit.symbol()
+                        + " is too small for a double in SI units");
+            }
             Medium medium = medium(unit);
             expectEnd();
             return build(value, uncertainty, unit, medium);

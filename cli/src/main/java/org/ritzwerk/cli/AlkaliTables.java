@@ -28,7 +28,7 @@ final class AlkaliTables {
     static State[] pair(String text) {
         String[] parts = text.split("->|-(?=\\s)|\\s-\\s");
         if (parts.length != 2) {
-            throw new IllegalArgumentException("--transition takes two states, e.g. \"50d5/2 -> 51p3/2\", got '"
+            throw new OptionException("--transition takes two states, e.g. \"50d5/2 -> 51p3/2\", got '"
                     + text + "'");
         }
         return new State[] {state(parts[0], "--transition"), state(parts[1], "--transition")};
@@ -41,7 +41,7 @@ final class AlkaliTables {
     static State[] ladder(String text) {
         String[] parts = text.split(",|->");
         if (parts.length != 3) {
-            throw new IllegalArgumentException("--ladder takes three states, e.g. \"5s1/2,5p3/2,60s1/2\", got '"
+            throw new OptionException("--ladder takes three states, e.g. \"5s1/2,5p3/2,60s1/2\", got '"
                     + text + "'");
         }
         return new State[] {state(parts[0], "--ladder"), state(parts[1], "--ladder"), state(parts[2], "--ladder")};
@@ -51,7 +51,7 @@ final class AlkaliTables {
         try {
             return State.parse(text.strip());
         } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException(option + ": " + e.getMessage(), e);
+            throw new OptionException(option + ": " + e.getMessage(), e);
         }
     }
 
@@ -67,11 +67,11 @@ final class AlkaliTables {
     static void checkRange(String option, AlkaliAtom atom, State[] states) {
         for (State state : states) {
             if (state.n() > HydrogenLikeLines.MAX_N) {
-                throw new IllegalArgumentException(option + ": " + state.notation() + " has n = " + state.n()
+                throw new OptionException(option + ": " + state.notation() + " has n = " + state.n()
                         + "; states are computed for n up to " + HydrogenLikeLines.MAX_N + " (as --n-max)");
             }
             if (state.n() < atom.lowestN(state.l())) {
-                throw new IllegalArgumentException(option + ": " + atom.species().notation() + " has no "
+                throw new OptionException(option + ": " + atom.species().notation() + " has no "
                         + state.notation() + " level: the lowest n of l = " + state.l() + " is "
                         + atom.lowestN(state.l()) + " (the lower shells are filled by the core)");
             }
@@ -85,7 +85,7 @@ final class AlkaliTables {
     static void transition(AlkaliAtom atom, State a, State b, double temperature, PrintWriter out,
             Table.Format format, Progress.Running working) {
         if (!AlkaliLines.isElectricDipole(a, b)) {
-            throw new IllegalArgumentException("--transition: " + a.notation() + " and " + b.notation()
+            throw new OptionException("--transition: " + a.notation() + " and " + b.notation()
                     + " are not joined by an electric-dipole line (needs Delta l = 1, Delta j <= 1)");
         }
         AlkaliLines.Line line = AlkaliLines.between(atom, a, b);

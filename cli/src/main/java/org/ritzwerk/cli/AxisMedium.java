@@ -13,13 +13,13 @@ final class AxisMedium {
     /**
      * @param option the --medium value
      * @return true for air, false for vacuum
-     * @throws IllegalArgumentException for anything else
+     * @throws OptionException for anything else
      */
     static boolean isAir(String option) {
         return switch (option) {
             case "air" -> true;
             case "vacuum" -> false;
-            default -> throw new IllegalArgumentException("--medium must be vacuum or air, got '" + option + "'");
+            default -> throw new OptionException("--medium must be vacuum or air, got '" + option + "'");
         };
     }
 

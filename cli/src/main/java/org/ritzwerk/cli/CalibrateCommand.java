@@ -195,7 +195,10 @@ final class CalibrateCommand implements Callable<Integer> {
         rules.refuseUnless("--max-degree", degree.equals("auto"), "with --degree " + degree
                 + " (it bounds the degree --degree auto may choose)");
         if (maxDegree < 1 || maxDegree > 9) {
-            throw new IllegalArgumentException("--max-degree must be a whole number from 1 to 9, got " + maxDegree);
+            throw new OptionException("--max-degree must be a whole number from 1 to 9, got " + maxDegree);
+        }
+        if (!degree.equals("auto")) {
+            parseDegree();
         }
         OptionRules.range("--threshold", threshold, 0, false, 1e12, "a signal-to-noise ratio above 0 (e.g. 5)");
         OptionRules.range("--tolerance", tolerance, 0, false, 1e9, "a distance in pixels above 0 (e.g. 3)");
@@ -226,11 +229,16 @@ final class CalibrateCommand implements Callable<Integer> {
     }
 
     private int parseDegree() {
+        int fixed;
         try {
-            return Integer.parseInt(degree);
+            fixed = Integer.parseInt(degree);
         } catch (NumberFormatException e) {
-            throw new IllegalArgumentException("--degree must be a whole number or auto, got '" + degree + "'");
+            throw new OptionException("--degree must be a whole number from 1 to 9 or auto, got '" + degree + "'");
         }
+        if (fixed < 1 || fixed > 9) {
+            throw new OptionException("--degree must be a whole number from 1 to 9 or auto, got " + fixed);
+        }
+        return fixed;
     }
 
     private LampMatcher.Prior prior() {
@@ -241,7 +249,7 @@ final class CalibrateCommand implements Callable<Integer> {
         double hi = Double.POSITIVE_INFINITY;
         if (from != null || to != null) {
             if (from == null || to == null) {
-                throw new IllegalArgumentException("give both --from and --to, or neither");
+                throw new OptionException("give both --from and --to, or neither");
             }
             Medium m = AxisMedium.of(medium);
             double a = AxisMedium.nanometres(from, m);
@@ -254,17 +262,17 @@ final class CalibrateCommand implements Callable<Integer> {
         if (dispersionRange != null) {
             String[] parts = dispersionRange.split(",");
             if (parts.length != 2) {
-                throw new IllegalArgumentException("--dispersion-range takes MIN,MAX in nm per pixel, got '"
+                throw new OptionException("--dispersion-range takes MIN,MAX in nm per pixel, got '"
                         + dispersionRange + "'");
             }
             try {
                 dMin = Double.parseDouble(parts[0].strip());
                 dMax = Double.parseDouble(parts[1].strip());
             } catch (NumberFormatException e) {
-                throw new IllegalArgumentException("--dispersion-range: '" + dispersionRange + "' is not two numbers");
+                throw new OptionException("--dispersion-range: '" + dispersionRange + "' is not two numbers");
             }
             if (!(dMin >= -1000 && dMin < dMax && dMax <= 1000)) {
-                throw new IllegalArgumentException("--dispersion-range must be MIN,MAX in nm per pixel with MIN below"
+                throw new OptionException("--dispersion-range must be MIN,MAX in nm per pixel with MIN below"
                         + " MAX, both from -1000 to 1000 (negative when wavelength falls with pixel), got "
                         + OptionRules.show(dMin) + "," + OptionRules.show(dMax));
             }
@@ -272,14 +280,14 @@ final class CalibrateCommand implements Callable<Integer> {
         try {
             return new LampMatcher.Prior(lo, hi, dMin, dMax);
         } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException("--from/--to/--dispersion-range: " + e.getMessage(), e);
+            throw new OptionException("--from/--to/--dispersion-range: " + e.getMessage(), e);
         }
     }
 
     /** The lamp lines of every --lamp species and --lines set, in the solution's medium. */
     private LampSet lampSet(Medium solutionMedium) {
         if (lamps.isEmpty() && lineSets.isEmpty()) {
-            throw new IllegalArgumentException("give the lamp: --lamp \"Ne I\" (built-in sets) or --lines FILE");
+            throw new OptionException("give the lamp: --lamp \"Ne I\" (built-in sets) or --lines FILE");
         }
         DataRegistry registry = data.context().registry();
         List<LineList> lists = new ArrayList<>();
@@ -287,7 +295,7 @@ final class CalibrateCommand implements Callable<Integer> {
             for (String text : option.split(",")) {
                 Species species = Species.parse(text.strip());
                 if (registry.find(DataKind.LAMP_LINES, species).isEmpty()) {
-                    throw new IllegalArgumentException("--lamp: no built-in lamp set for " + species.notation()
+                    throw new OptionException("--lamp: no built-in lamp set for " + species.notation()
                             + "; see `ritzwerk data`, or give your own list with --lines");
                 }
                 lists.add(data.context().lampLines(species));
@@ -303,7 +311,7 @@ final class CalibrateCommand implements Callable<Integer> {
         try {
             return lamp.atLeast(StrengthClass.fromId(minStrength.strip().toLowerCase(java.util.Locale.ROOT)));
         } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException("--min-strength: " + e.getMessage(), e);
+            throw new OptionException("--min-strength: " + e.getMessage(), e);
         }
     }
 
@@ -406,7 +414,7 @@ final class CalibrateCommand implements Callable<Integer> {
     private int applySolution(SpectrumFiles.Spectrum spectrum) throws IOException {
         CalibrationFiles.Calibration saved = CalibrationFiles.read(apply);
         if (spectrum.pixels() != saved.pixels()) {
-            throw new IllegalArgumentException(spectrumFile + " has " + spectrum.pixels() + " pixels but " + apply
+            throw new OptionException(spectrumFile + " has " + spectrum.pixels() + " pixels but " + apply
                     + " was made for " + saved.pixels());
         }
         String text = SpectrumFiles.withWavelengths(spectrum, saved.solution(), apply.getFileName().toString());

@@ -25,14 +25,14 @@ final class ContinuumFile {
      * @param hi   the last pixel edge, nm; the file must reach it
      * @return the density as a function of wavelength in nm, divided by its largest value
      * @throws IOException when the file cannot be read
-     * @throws IllegalArgumentException naming the file, line and field of every bad row
+     * @throws OptionException naming the file, line and field of every bad row
      */
     static DoubleUnaryOperator read(Path file, double lo, double hi) throws IOException {
         List<String> text;
         try {
             text = Files.readAllLines(file, StandardCharsets.UTF_8);
         } catch (java.nio.file.NoSuchFileException e) {
-            throw new IllegalArgumentException(file + ": no such file (--continuum-file)");
+            throw new OptionException(file + ": no such file (--continuum-file)");
         }
         double[] x = new double[text.size()];
         double[] y = new double[text.size()];
@@ -48,7 +48,7 @@ final class ContinuumFile {
             }
             if (!header) {
                 if (!line.replace(" ", "").equals("wavelength_nm,density")) {
-                    throw new IllegalArgumentException(where + "expected the header 'wavelength_nm,density', got '"
+                    throw new OptionException(where + "expected the header 'wavelength_nm,density', got '"
                             + line + "'");
                 }
                 header = true;
@@ -83,15 +83,15 @@ final class ContinuumFile {
             n++;
         }
         if (!problems.isEmpty()) {
-            throw new IllegalArgumentException(problems.size() == 1 ? problems.get(0)
+            throw new OptionException(problems.size() == 1 ? problems.get(0)
                     : problems.size() + " problems in " + file + " (--continuum-file):\n  " + String.join("\n  ",
                             problems));
         }
         if (n < 2) {
-            throw new IllegalArgumentException(file + ": needs at least two rows after the header, found " + n);
+            throw new OptionException(file + ": needs at least two rows after the header, found " + n);
         }
         if (x[0] > lo || x[n - 1] < hi) {
-            throw new IllegalArgumentException(file + ": covers " + x[0] + " to " + x[n - 1]
+            throw new OptionException(file + ": covers " + x[0] + " to " + x[n - 1]
                     + " nm but the spectrum spans " + lo + " to " + hi + " nm");
         }
         double[] xs = Arrays.copyOf(x, n);

@@ -78,7 +78,7 @@ final class ConvertCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         if (digits < 0 || digits > 17) {
-            throw new IllegalArgumentException("--digits must be 0 to 17, got " + digits);
+            throw new OptionException("--digits must be 0 to 17, got " + digits);
         }
         QuantityText text = QuantityText.standard().withAir(AirModels.parse(air));
         List<Target> parsedTargets = new ArrayList<>();
@@ -98,7 +98,7 @@ final class ConvertCommand implements Callable<Integer> {
             }
         }
         if (values.isEmpty()) {
-            throw new IllegalArgumentException("nothing to convert: give a QUANTITY or --input FILE");
+            throw new OptionException("nothing to convert: give a QUANTITY or --input FILE");
         }
         boolean air = false;
         for (String given : inputs) {

@@ -136,7 +136,7 @@ final class DemoScenario {
      */
     private void claimFolder() throws IOException {
         if (Files.exists(folder) && !Files.isDirectory(folder)) {
-            throw new IllegalArgumentException("--out-dir " + folder + " is a file, not a folder");
+            throw new OptionException("--out-dir " + folder + " is a file, not a folder");
         }
         if (Files.isDirectory(folder) && Files.notExists(folder.resolve(MARKER))) {
             List<String> found = new ArrayList<>();
@@ -144,7 +144,7 @@ final class DemoScenario {
                 entries.limit(4).forEach(f -> found.add(f.getFileName().toString()));
             }
             if (!found.isEmpty()) {
-                throw new IllegalArgumentException("--out-dir " + folder + " already holds files the demo did not make ("
+                throw new OptionException("--out-dir " + folder + " already holds files the demo did not make ("
                         + String.join(", ", found.subList(0, Math.min(3, found.size())))
                         + (found.size() > 3 ? ", ..." : "") + "); give a new or empty folder");
             }

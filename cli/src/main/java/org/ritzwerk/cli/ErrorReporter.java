@@ -4,9 +4,10 @@ import org.ritzwerk.RitzwerkException;
 import picocli.CommandLine;
 
 /**
- * Turns failures into one clear message on standard error: bad input (a {@link RitzwerkException}
- * or a refused argument) exits with 2 and no stack trace; anything else is a bug, reported with
- * exit code 1. The stack trace is printed only with {@code --debug} (or {@code RITZWERK_DEBUG} set).
+ * Turns failures into one clear message on standard error: bad input (a {@link RitzwerkException},
+ * which every reader, job and option check throws for what the user gave, or a file that cannot be
+ * read or written) exits with 2 and no stack trace; anything else, an {@link IllegalArgumentException}
+ * from a broken precondition included, is a bug, reported with exit code 1 and a request to report it. The stack trace is printed only with {@code --debug} (or {@code RITZWERK_DEBUG} set).
  */
 final class ErrorReporter implements CommandLine.IExecutionExceptionHandler {
 
@@ -27,7 +28,7 @@ final class ErrorReporter implements CommandLine.IExecutionExceptionHandler {
             }
             return BAD_INPUT;
         }
-        if (ex instanceof RitzwerkException || ex instanceof IllegalArgumentException) {
+        if (ex instanceof RitzwerkException) {
             commandLine.getErr().println(command + ": " + ex.getMessage());
             if (debug) {
                 ex.printStackTrace(commandLine.getErr());

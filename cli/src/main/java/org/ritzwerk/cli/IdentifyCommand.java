@@ -11,6 +11,7 @@ import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.IdentificationException;
 import org.ritzwerk.engine.identify.IdentificationSearch;
 import org.ritzwerk.engine.identify.Identifier;
 import org.ritzwerk.engine.identify.LineCatalog;
@@ -163,10 +164,10 @@ final class IdentifyCommand implements Callable<Integer> {
     private void checkOptions() {
         OptionRules rules = new OptionRules(spec);
         if (species.isEmpty() && lineSets.isEmpty()) {
-            throw new IllegalArgumentException("give candidate lines: --species (one-electron ions) and/or --lines");
+            throw new OptionException("give candidate lines: --species (one-electron ions) and/or --lines");
         }
         if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
-            throw new IllegalArgumentException("--n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
+            throw new OptionException("--n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
         }
         rules.refuseUnless("--instrument-fwhm", plasma, "without --plasma (it is the spectrometer width the plasma"
                 + " diagnostics take out)");
@@ -182,12 +183,12 @@ final class IdentifyCommand implements Callable<Integer> {
                     "a temperature above 0 and at most 1e9 K");
         }
         if (plasma && components) {
-            throw new IllegalArgumentException("--plasma works on n -> n' multiplets; leave out --components");
+            throw new OptionException("--plasma works on n -> n' multiplets; leave out --components");
         }
         OptionRules.range("--instrument-fwhm", instrumentFwhm, 0, true, 1e6, "a width from 0 to 1e6 nm");
         if (resolvingPower != null) {
             if (rules.given("--instrument-fwhm")) {
-                throw new IllegalArgumentException("give --instrument-fwhm or --resolving-power, not both");
+                throw new OptionException("give --instrument-fwhm or --resolving-power, not both");
             }
             OptionRules.range("--resolving-power", resolvingPower, 1, true, 1e9,
                     "a resolving power lambda / FWHM from 1 to 1e9 (e.g. 5000)");
@@ -198,8 +199,9 @@ final class IdentifyCommand implements Callable<Integer> {
                             PhysicalConstants.C / 1e4));
         }
         if (searchOffset != null) {
-            OptionRules.range("--search-offset", searchOffset, 0, false, Double.MAX_VALUE,
-                    "a positive width in nm, at most a tenth of the shortest peak's wavelength");
+            // A floor far below any real width keeps the width a normal double once converted to metres.
+            OptionRules.range("--search-offset", searchOffset, 1e-290, true, Double.MAX_VALUE,
+                    "a positive width in nm (at least 1e-290 nm), at most a tenth of the shortest peak's wavelength");
         }
         if (tolerance != null) {
             checkTolerance(tolerance);
@@ -218,7 +220,7 @@ final class IdentifyCommand implements Callable<Integer> {
         }
         double limitNm = shortest * 1e9 / 10;
         if (searchOffset > limitNm) {
-            throw new IllegalArgumentException(String.format(Locale.ROOT, "--search-offset must be a positive width in"
+            throw new OptionException(String.format(Locale.ROOT, "--search-offset must be a positive width in"
                     + " nm, at most a tenth of the shortest peak's wavelength (%.6g nm here, in vacuum), got %s nm",
                     limitNm,
                     OptionRules.show(searchOffset)));
@@ -238,7 +240,7 @@ final class IdentifyCommand implements Callable<Integer> {
         }
         double value = Double.parseDouble(m.group(1));
         if (!(value > 0) || Double.isInfinite(value)) {
-            throw new IllegalArgumentException("--tolerance must be a positive finite number with its unit: \"5 sigma\","
+            throw new OptionException("--tolerance must be a positive finite number with its unit: \"5 sigma\","
                     + " a width such as \"0.02 nm\" or \"0.5 cm-1\", \"20 ppm\" or a resolving power \"R=20000\"; got "
                     + (Double.isFinite(value) ? "'" + text.strip() + "'" : OptionRules.show(value)));
         }
@@ -247,15 +249,15 @@ final class IdentifyCommand implements Callable<Integer> {
     private Tolerance tolerance(boolean uncertain) {
         if (tolerance == null) {
             if (!uncertain) {
-                throw new IllegalArgumentException("the peaks do not all state an uncertainty; give --tolerance, e.g. "
+                throw new OptionException("the peaks do not all state an uncertainty; give --tolerance, e.g. "
                         + "\"0.02 nm\", \"20 ppm\" or \"R=20000\"");
             }
             return Tolerance.kSigma(5);
         }
         try {
             return Tolerance.parse(tolerance);
-        } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException("--tolerance: " + e.getMessage(), e);
+        } catch (IdentificationException e) {
+            throw new OptionException("--tolerance: " + e.getMessage(), e);
         }
     }
 
@@ -266,7 +268,7 @@ final class IdentifyCommand implements Callable<Integer> {
     private static void refuseZeroUncertainties(PeakFiles.Peaks read, Path file) {
         for (int i = 0; i < read.size(); i++) {
             if (read.uncertainties()[i] == 0) {
-                throw new IllegalArgumentException(file + ":" + read.lines()[i] + ": the peak's uncertainty"
+                throw new OptionException(file + ":" + read.lines()[i] + ": the peak's uncertainty"
                         + " is 0, which can never match under a sigma tolerance; give its standard uncertainty, leave"
                         + " it empty and use a width tolerance such as --tolerance \"0.02 nm\"");
             }

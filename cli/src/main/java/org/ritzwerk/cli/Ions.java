@@ -27,7 +27,7 @@ final class Ions {
      */
     List<Ion> resolve(DataContext data) {
         if (species.isEmpty()) {
-            throw new IllegalArgumentException("--species is required, e.g. --species \"H I\"");
+            throw new OptionException("--species is required, e.g. --species \"H I\"");
         }
         return of(data, species, model);
     }
@@ -52,7 +52,7 @@ final class Ions {
      */
     Atoms resolveAtoms(DataContext data) {
         if (species.isEmpty()) {
-            throw new IllegalArgumentException("--species is required, e.g. --species \"H I\" or \"Rb-87 I\"");
+            throw new OptionException("--species is required, e.g. --species \"H I\" or \"Rb-87 I\"");
         }
         return atoms(data, species, model);
     }
@@ -73,7 +73,7 @@ final class Ions {
             } else if (parsed.charge() == 0 && data.alkaliSpecies().stream().anyMatch(s -> s.z() == parsed.z())) {
                 alkalis.add(data.alkaliAtom(parsed));
             } else {
-                throw new IllegalArgumentException(parsed.notation() + ": levels and lines cover one-electron ions "
+                throw new OptionException(parsed.notation() + ": levels and lines cover one-electron ions "
                         + "(H I, D I, He II, C VI, ...) and the neutral alkali atoms "
                         + data.alkaliSpecies().stream().map(Species::notation).toList());
             }
@@ -93,7 +93,7 @@ final class Ions {
         for (String text : entries(speciesOptions)) {
             Species species = Species.parse(text);
             if (!species.isHydrogenLike()) {
-                throw new IllegalArgumentException(species.notation() + " has " + (species.z() - species.charge())
+                throw new OptionException(species.notation() + " has " + (species.z() - species.charge())
                         + " electrons; levels and lines cover one-electron ions (H I, D I, He II, C VI, ...) so far");
             }
             ions.add(new Ion(species, HydrogenLikeModel.of(data.nucleus(species), tier)));
@@ -107,7 +107,7 @@ final class Ions {
         for (String option : speciesOptions) {
             for (String text : option.split(",")) {
                 if (text.isBlank()) {
-                    throw new IllegalArgumentException("--species has an empty entry in '" + option + "'");
+                    throw new OptionException("--species has an empty entry in '" + option + "'");
                 }
                 entries.add(text);
             }

@@ -72,7 +72,7 @@ final class LevelsCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         if (nMax < 1 || nMax > 2000) {
-            throw new IllegalArgumentException("--n-max must be 1 to 2000, got " + nMax);
+            throw new OptionException("--n-max must be 1 to 2000, got " + nMax);
         }
         List<Table.Column> columns = new ArrayList<>(List.of(
                 Table.Column.text("species", "species"),
@@ -95,7 +95,7 @@ final class LevelsCommand implements Callable<Integer> {
                     "a temperature above 0 and below 1e5 K");
         }
         if (lMax < 0 || lMax > 50) {
-            throw new IllegalArgumentException("--l-max must be 0 to 50, got " + lMax);
+            throw new OptionException("--l-max must be 0 to 50, got " + lMax);
         }
         double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
         Ions.Atoms atoms = ions.resolveAtoms(data.context());

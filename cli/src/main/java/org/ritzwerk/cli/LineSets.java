@@ -18,14 +18,14 @@ final class LineSets {
      * @param set     a path to a line-list file, or a data set id such as {@code lamp-ne-i}
      * @param option  the option that named it, for messages
      * @return the line list
-     * @throws IllegalArgumentException when the set is not a line list
+     * @throws OptionException when the set is not a line list
      */
     static LineList load(DataContext context, String set, String option) {
         try {
             return context.lineList(set);
         } catch (ReferenceDataException e) {
             if (ReferenceDataException.WRONG_KIND.equals(e.code())) {
-                throw new IllegalArgumentException(option + " " + e.getMessage(), e);
+                throw new OptionException(option + " " + e.getMessage(), e);
             }
             throw e;
         }

@@ -157,7 +157,7 @@ final class LinesCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
-            throw new IllegalArgumentException("--n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
+            throw new OptionException("--n-max must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
         }
         OptionRules.range("--min-a", minA, 0, true, Double.MAX_VALUE, "a rate of 0 s^-1 or more (e.g. 1e6)");
         boolean air = AxisMedium.isAir(medium);
@@ -181,15 +181,15 @@ final class LinesCommand implements Callable<Integer> {
             return single(atoms);
         }
         if (from == null || to == null) {
-            throw new IllegalArgumentException("give --from and --to (or, for alkali atoms, --transition or --ladder)");
+            throw new OptionException("give --from and --to (or, for alkali atoms, --transition or --ladder)");
         }
         if (lMax < 0 || lMax > 50) {
-            throw new IllegalArgumentException("--l-max must be 0 to 50, got " + lMax);
+            throw new OptionException("--l-max must be 0 to 50, got " + lMax);
         }
         SpectralQuantity one = QuantityText.standard().parseSpectral(from);
         SpectralQuantity two = QuantityText.standard().parseSpectral(to);
         if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {
-            throw new IllegalArgumentException("--from and --to are the same position; give a window");
+            throw new OptionException("--from and --to are the same position; give a window");
         }
         double lowHz = Math.min(one.toFrequency().inHertz(), two.toFrequency().inHertz());
         double highHz = Math.max(one.toFrequency().inHertz(), two.toFrequency().inHertz());
@@ -262,10 +262,10 @@ final class LinesCommand implements Callable<Integer> {
     /** --transition or --ladder: one alkali atom's single transition or ladder. */
     private int single(Ions.Atoms atoms) {
         if (transition != null && ladder != null) {
-            throw new IllegalArgumentException("give --transition or --ladder, not both");
+            throw new OptionException("give --transition or --ladder, not both");
         }
         if (atoms.alkalis().size() != 1 || !atoms.ions().isEmpty()) {
-            throw new IllegalArgumentException((transition != null ? "--transition" : "--ladder")
+            throw new OptionException((transition != null ? "--transition" : "--ladder")
                     + " needs exactly one alkali atom in --species, e.g. \"Rb-87 I\"");
         }
         OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e5),

@@ -46,7 +46,7 @@ final class OptionRules {
      */
     void refuseUnless(String option, boolean useful, String why) {
         if (!useful && given(option)) {
-            throw new IllegalArgumentException(option + " has no effect " + why);
+            throw new OptionException(option + " has no effect " + why);
         }
     }
 
@@ -59,12 +59,12 @@ final class OptionRules {
      * @param allowed the allowed range in the user's words and units, e.g. "a temperature above 0 and
      *                at most 1e9 K"
      * @return the value
-     * @throws IllegalArgumentException naming the option and the allowed range
+     * @throws OptionException naming the option and the allowed range
      */
     static double range(String option, double value, double min, boolean minInclusive, double max, String allowed) {
         boolean ok = (minInclusive ? value >= min : value > min) && value <= max;
         if (!ok) {
-            throw new IllegalArgumentException(option + " must be " + allowed + ", got " + show(value));
+            throw new OptionException(option + " must be " + allowed + ", got " + show(value));
         }
         return value;
     }

@@ -178,17 +178,17 @@ final class SynthCommand implements Callable<Integer> {
         checkOptions();
         checkOutputs();
         if (!format.equals("csv") && !format.equals("json")) {
-            throw new IllegalArgumentException("--format must be csv or json, got '" + format + "'");
+            throw new OptionException("--format must be csv or json, got '" + format + "'");
         }
         int threadCount = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
         if (threadCount < 1 || threadCount > 1024) {
-            throw new IllegalArgumentException("--threads must be 1 to 1024, got " + threadCount);
+            throw new OptionException("--threads must be 1 to 1024, got " + threadCount);
         }
         Medium axisMedium = AxisMedium.of(medium);
         PixelGrid grid = grid(axisMedium);
         double span = Math.abs(grid.edge(grid.pixels()) - grid.edge(0));
         if (collisionalWidth > 1000 * span) {
-            throw new IllegalArgumentException("--collisional-width must be a Lorentzian FWHM from 0 to 1000 times the"
+            throw new OptionException("--collisional-width must be a Lorentzian FWHM from 0 to 1000 times the"
                     + " spectrum's span (" + OptionRules.show(1000 * span) + " nm here), got "
                     + OptionRules.show(collisionalWidth) + " nm");
         }
@@ -217,7 +217,7 @@ final class SynthCommand implements Callable<Integer> {
         rules.refuseUnless("--n-max", !ions.species.isEmpty(), "without --species (--lines lists bring their own"
                 + " lines)");
         if (resolved.isEmpty() && atoms.alkalis().isEmpty() && lineSets.isEmpty()) {
-            throw new IllegalArgumentException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
+            throw new OptionException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
                     + " or both");
         }
         for (Ions.Ion ion : resolved) {
@@ -234,7 +234,7 @@ final class SynthCommand implements Callable<Integer> {
         for (int z : abundance.keySet()) {
             if (resolved.stream().noneMatch(ion -> ion.species().z() == z)
                     && atoms.alkalis().stream().noneMatch(atom -> atom.species().z() == z)) {
-                throw new IllegalArgumentException("--abundance names " + Elements.symbol(z)
+                throw new OptionException("--abundance names " + Elements.symbol(z)
                         + ", which is not among --species");
             }
         }
@@ -243,7 +243,7 @@ final class SynthCommand implements Callable<Integer> {
             try {
                 builder.lineList(list, data.context()::nucleus);
             } catch (IllegalArgumentException e) {
-                throw new IllegalArgumentException("--lines " + set + ": " + e.getMessage(), e);
+                throw new OptionException("--lines " + set + ": " + e.getMessage(), e);
             }
         }
         addContinuum(builder, grid);
@@ -251,7 +251,7 @@ final class SynthCommand implements Callable<Integer> {
             option("--read-noise", () -> builder.noise(readNoise, seed));
         }
         if (naturalWidths && nMax > Scene.MAX_N_WITH_NATURAL_WIDTHS && !resolved.isEmpty()) {
-            throw new IllegalArgumentException("--natural-widths are computed up to n = "
+            throw new OptionException("--natural-widths are computed up to n = "
                     + Scene.MAX_N_WITH_NATURAL_WIDTHS + "; lower --n-max (" + nMax + ") or leave them out");
         }
         Scene scene = builder.build();
@@ -265,10 +265,10 @@ final class SynthCommand implements Callable<Integer> {
                 String range = dispersion == null ? from + " and " + to : fmt(spectrumEdge(0)) + " nm and "
                         + fmt(spectrumEdge(1)) + " nm";
                 if (dark[0] > 0) {
-                    throw new IllegalArgumentException(dark[0] + " line(s) of " + emitters() + " fall between " + range
+                    throw new OptionException(dark[0] + " line(s) of " + emitters() + " fall between " + range
                             + ", but none carries any light: " + darkReason(), e);
                 }
-                throw new IllegalArgumentException("no line of " + emitters() + " falls between " + range
+                throw new OptionException("no line of " + emitters() + " falls between " + range
                         + " (n <= " + nMax + "); widen the range or raise --n-max", e);
             }
             throw e;
@@ -318,14 +318,14 @@ final class SynthCommand implements Callable<Integer> {
     private void checkOptions() {
         OptionRules rules = new OptionRules(spec);
         if (pixels < 2 || pixels > 50_000_000) {
-            throw new IllegalArgumentException("--pixels must be 2 to 50000000, got " + pixels);
+            throw new OptionException("--pixels must be 2 to 50000000, got " + pixels);
         }
         OptionRules.range("--resolving-power", resolvingPower, 1, true, 1e9,
                 "a resolving power lambda / FWHM from 1 to 1e9 (e.g. 5000)");
         OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e9), "a temperature above 0 and below 1e9 K");
         double maxSpeed = org.ritzwerk.constants.PhysicalConstants.C / 1e4;
         if (!(Math.abs(velocity) < maxSpeed)) {
-            throw new IllegalArgumentException(String.format(Locale.ROOT, "--velocity must be a line-of-sight speed in"
+            throw new OptionException(String.format(Locale.ROOT, "--velocity must be a line-of-sight speed in"
                     + " km/s below a tenth of the speed of light in size (-%.0f to %.0f km/s), got %s km/s",
                     maxSpeed, maxSpeed, OptionRules.show(velocity)));
         }
@@ -356,10 +356,10 @@ final class SynthCommand implements Callable<Integer> {
     private PixelGrid grid(Medium axisMedium) {
         if (dispersion != null) {
             if (from != null || to != null) {
-                throw new IllegalArgumentException("give --dispersion or --from/--to, not both");
+                throw new OptionException("give --dispersion or --from/--to, not both");
             }
             if (!gridKind.equals("linear")) {
-                throw new IllegalArgumentException("--grid does not apply with --dispersion");
+                throw new OptionException("--grid does not apply with --dispersion");
             }
             String[] cells = dispersion.split(",");
             double[] c = new double[cells.length];
@@ -367,30 +367,30 @@ final class SynthCommand implements Callable<Integer> {
                 try {
                     c[k] = Double.parseDouble(cells[k].strip());
                 } catch (NumberFormatException e) {
-                    throw new IllegalArgumentException("--dispersion: coefficient c" + k + " '" + cells[k].strip()
+                    throw new OptionException("--dispersion: coefficient c" + k + " '" + cells[k].strip()
                             + "' is not a number");
                 }
             }
             try {
                 return PixelGrid.dispersion(c, pixels);
             } catch (IllegalArgumentException e) {
-                throw new IllegalArgumentException("--dispersion: " + e.getMessage(), e);
+                throw new OptionException("--dispersion: " + e.getMessage(), e);
             }
         }
         if (from == null || to == null) {
-            throw new IllegalArgumentException("give --from and --to (or --dispersion)");
+            throw new OptionException("give --from and --to (or --dispersion)");
         }
         double oneEnd = AxisMedium.nanometres(from, axisMedium);
         double otherEnd = AxisMedium.nanometres(to, axisMedium);
         double lo = Math.min(oneEnd, otherEnd);
         double hi = Math.max(oneEnd, otherEnd);
         if (!(hi > lo)) {
-            throw new IllegalArgumentException("--from and --to are the same position; give a range");
+            throw new OptionException("--from and --to are the same position; give a range");
         }
         return switch (gridKind) {
             case "linear" -> PixelGrid.linear(lo, hi, pixels);
             case "log" -> PixelGrid.logarithmic(lo, hi, pixels);
-            default -> throw new IllegalArgumentException("--grid must be linear or log, got '" + gridKind + "'");
+            default -> throw new OptionException("--grid must be linear or log, got '" + gridKind + "'");
         };
     }
 
@@ -427,7 +427,7 @@ final class SynthCommand implements Callable<Integer> {
         try {
             step.run();
         } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException(name + ": " + e.getMessage(), e);
+            throw new OptionException(name + ": " + e.getMessage(), e);
         }
     }
 
@@ -437,22 +437,22 @@ final class SynthCommand implements Callable<Integer> {
             for (String item : entry.split(",")) {
                 int eq = item.indexOf('=');
                 if (eq < 0) {
-                    throw new IllegalArgumentException("--abundance takes ELEMENT=NUMBER, e.g. He=0.1, got '" + item + "'");
+                    throw new OptionException("--abundance takes ELEMENT=NUMBER, e.g. He=0.1, got '" + item + "'");
                 }
                 String symbol = item.substring(0, eq).strip();
-                int z = Elements.atomicNumber(symbol).orElseThrow(() -> new IllegalArgumentException(
+                int z = Elements.atomicNumber(symbol).orElseThrow(() -> new OptionException(
                         "--abundance: unknown element '" + symbol + "' in '" + item + "'"));
                 double value;
                 try {
                     value = Double.parseDouble(item.substring(eq + 1).strip());
                 } catch (NumberFormatException e) {
-                    throw new IllegalArgumentException("--abundance: '" + item.substring(eq + 1).strip()
+                    throw new OptionException("--abundance: '" + item.substring(eq + 1).strip()
                             + "' is not a number in '" + item + "'");
                 }
                 OptionRules.range("--abundance of " + symbol, value, 0, false, Double.MAX_VALUE,
                         "a positive finite number (relative to 1 for each other element)");
                 if (result.put(z, value) != null) {
-                    throw new IllegalArgumentException("--abundance gives " + symbol + " twice");
+                    throw new OptionException("--abundance gives " + symbol + " twice");
                 }
             }
         }
@@ -463,7 +463,7 @@ final class SynthCommand implements Callable<Integer> {
         DoubleUnaryOperator density;
         if (continuumFile != null) {
             if (!continuumKind.equals("none")) {
-                throw new IllegalArgumentException("give --continuum or --continuum-file, not both");
+                throw new OptionException("give --continuum or --continuum-file, not both");
             }
             density = ContinuumFile.read(continuumFile, grid.edge(0), grid.edge(grid.pixels()));
         } else {
@@ -479,7 +479,7 @@ final class SynthCommand implements Callable<Integer> {
                     density = nm -> Continuum.planckPerWavelength(axisMedium.toVacuum(nm * 1e-9), t);
                     break;
                 default:
-                    throw new IllegalArgumentException("--continuum must be none, flat or blackbody, got '"
+                    throw new OptionException("--continuum must be none, flat or blackbody, got '"
                             + continuumKind + "'");
             }
         }

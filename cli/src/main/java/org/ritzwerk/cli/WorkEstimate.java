@@ -41,7 +41,7 @@ final class WorkEstimate {
      * @param nMax highest n asked for
      * @param ions how many one-electron ions
      * @return a notice to print before the run when it is expected to take long, else empty
-     * @throws IllegalArgumentException past {@link #HYDROGEN_LIFETIMES_N_MAX}, with the limit and the
+     * @throws OptionException past {@link #HYDROGEN_LIFETIMES_N_MAX}, with the limit and the
      *         time the run would take
      */
     static Optional<String> hydrogenLifetimes(int nMax, int ions) {
@@ -49,7 +49,7 @@ final class WorkEstimate {
             return Optional.empty();
         }
         if (nMax > HYDROGEN_LIFETIMES_N_MAX) {
-            throw new IllegalArgumentException(String.format(Locale.ROOT, "--lifetimes of one-electron ions goes up to"
+            throw new OptionException(String.format(Locale.ROOT, "--lifetimes of one-electron ions goes up to"
                     + " --n-max %d (about %s); --n-max %d would take about %s; leave out --lifetimes or lower --n-max",
                     HYDROGEN_LIFETIMES_N_MAX, Progress.duration(hydrogenLifetimesSeconds(HYDROGEN_LIFETIMES_N_MAX, 1)),
                     nMax, Progress.duration(hydrogenLifetimesSeconds(nMax, ions))));

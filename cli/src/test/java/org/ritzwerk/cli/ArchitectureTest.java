@@ -19,7 +19,8 @@ import org.junit.jupiter.api.Test;
  * command builds ({@link DataOptions}), never from a built-in singleton: no source file under
  * {@code src/main} calls {@code NuclearData.builtIn()}, {@code RydbergData.builtIn()},
  * {@code DataRegistry.builtIn()} or {@code DataContext.builtIn()}, or names the built-in data
- * classes at all, and only {@link DataOptions} discovers the providers.
+ * classes at all, and only {@link DataOptions} discovers the providers. No command tells a
+ * failure's kind by its message text (it uses the exception's type or code).
  */
 class ArchitectureTest {
 
@@ -30,6 +31,9 @@ class ArchitectureTest {
     /** The classes that hold built-in singletons; the command line has no business with them. */
     private static final Pattern SINGLETON_CLASSES = Pattern.compile("\\b(NuclearData|RydbergData)\\b");
     private static final Pattern DISCOVER = Pattern.compile("\\bdiscover(Default)?\\s*\\(");
+    /** Telling a failure's kind by its text: getMessage() followed by a comparison or search. */
+    private static final Pattern MESSAGE_TEST = Pattern.compile(
+            "getMessage\\(\\)\\s*\\.\\s*(contains|startsWith|endsWith|equals|equalsIgnoreCase|matches|indexOf)\\b");
 
     /** Files left out of the check: none (the demo takes its context like every command). */
     private static final Set<String> NOT_YET_CHECKED = Set.of();
@@ -49,6 +53,7 @@ class ArchitectureTest {
                 String line = lines.get(i);
                 check(findings, name, i + 1, line, BUILT_IN_CALL, "calls a built-in default");
                 check(findings, name, i + 1, line, SINGLETON_CLASSES, "names a built-in singleton class");
+                check(findings, name, i + 1, line, MESSAGE_TEST, "tells a failure by its message (use its type or code)");
                 if (!name.equals("DataOptions.java")) {
                     check(findings, name, i + 1, line, DISCOVER, "discovers providers outside DataOptions");
                 }
@@ -66,7 +71,9 @@ class ArchitectureTest {
         check(findings, "X.java", 3, "import org.ritzwerk.refdata.RydbergData;", SINGLETON_CLASSES, "c");
         check(findings, "X.java", 4, "DataRegistry r = DataRegistry.discoverDefault();", DISCOVER, "d");
         check(findings, "X.java", 5, "context.alkaliAtom(species); // builtInSets", BUILT_IN_CALL, "none");
-        assertTrue(findings.size() == 4, findings.toString());
+        check(findings, "X.java", 6, "if (e.getMessage().contains(\"no peak\")) {", MESSAGE_TEST, "m");
+        check(findings, "X.java", 7, "throw new OptionException(\"--x: \" + e.getMessage(), e);", MESSAGE_TEST, "none");
+        assertTrue(findings.size() == 5, findings.toString());
     }
 
     private static void check(List<String> findings, String file, int line, String text, Pattern pattern,

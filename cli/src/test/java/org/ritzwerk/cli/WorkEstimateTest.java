@@ -19,7 +19,7 @@ class WorkEstimateTest {
         assertEquals("note: levels: the lifetimes of every level up to n = 200 will take about 3 min (a rough estimate);"
                 + " Ctrl-C stops it", notice);
         assertTrue(WorkEstimate.hydrogenLifetimes(WorkEstimate.HYDROGEN_LIFETIMES_N_MAX, 2).isPresent());
-        IllegalArgumentException refused = assertThrows(IllegalArgumentException.class,
+        OptionException refused = assertThrows(OptionException.class,
                 () -> WorkEstimate.hydrogenLifetimes(WorkEstimate.HYDROGEN_LIFETIMES_N_MAX + 1, 1));
         assertTrue(refused.getMessage().startsWith("--lifetimes of one-electron ions goes up to --n-max 300 (about 11 min);"
                 + " --n-max 301 would take about 11 min"), refused.getMessage());

@@ -22,6 +22,7 @@ import java.util.Map;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ThreadLocalRandom;
+import org.ritzwerk.RitzwerkException;
 
 /**
  * Writes output files so that nothing the user had is lost: the content goes to a temporary file
@@ -218,6 +219,13 @@ public final class OutputFiles {
         }
     }
 
+    /** Error code of an output path refused by {@link #check}: bad input, not a failure of the disk. */
+    public static final String REFUSED = "output.refused";
+
+    private static RitzwerkException refused(String message) {
+        return new RitzwerkException(REFUSED, message);
+    }
+
     /** A path a command reads or writes, with the option that named it (for messages). */
     public record Named(String option, Path path) {
     }
@@ -227,7 +235,7 @@ public final class OutputFiles {
      *
      * @param outputs the files the command will write (null paths are skipped)
      * @param inputs  the files the command reads (null paths and files that do not exist are skipped)
-     * @throws IllegalArgumentException naming the option(s) and the path: when two outputs are the
+     * @throws RitzwerkException with code {@link #REFUSED}, naming the option(s) and the path: when two outputs are the
      *         same file, an output is an input, an output's folder does not exist, is not a folder
      *         or cannot be written (a file is created and removed there to find out), or the output
      *         exists and is a folder or is read-only
@@ -242,13 +250,13 @@ public final class OutputFiles {
             Path id = identity(output.path());
             for (int k = 0; k < seen.size(); k++) {
                 if (seenIds.get(k).equals(id)) {
-                    throw new IllegalArgumentException(seen.get(k).option() + " and " + output.option()
+                    throw refused(seen.get(k).option() + " and " + output.option()
                             + " name the same file: " + output.path() + "; give each output its own file");
                 }
             }
             for (Named input : inputs) {
                 if (input.path() != null && Files.exists(input.path()) && identity(input.path()).equals(id)) {
-                    throw new IllegalArgumentException(output.option() + " " + output.path() + " is the input given with "
+                    throw refused(output.option() + " " + output.path() + " is the input given with "
                             + input.option() + "; writing it would destroy the input");
                 }
             }
@@ -264,16 +272,16 @@ public final class OutputFiles {
         Path folder = target.getParent();
         String where = output.option() + " " + file + ": ";
         if (!Files.exists(folder)) {
-            throw new IllegalArgumentException(where + "the folder " + folder + " does not exist");
+            throw refused(where + "the folder " + folder + " does not exist");
         }
         if (!Files.isDirectory(folder)) {
-            throw new IllegalArgumentException(where + folder + " is not a folder");
+            throw refused(where + folder + " is not a folder");
         }
         if (Files.isDirectory(target)) {
-            throw new IllegalArgumentException(where + "is a folder, not a file");
+            throw refused(where + "is a folder, not a file");
         }
         if (Files.exists(target) && !Files.isWritable(target)) {
-            throw new IllegalArgumentException(where + "the file is read-only");
+            throw refused(where + "the file is read-only");
         }
         try {
             Files.delete(temporaryBeside(target));
@@ -281,7 +289,7 @@ public final class OutputFiles {
             String reason = e instanceof java.nio.file.AccessDeniedException ? "permission denied"
                     : e instanceof java.nio.file.FileSystemException f && f.getReason() != null ? f.getReason()
                     : "no file can be created there";
-            throw new IllegalArgumentException(where + "cannot write in the folder " + folder + " (" + reason + ")");
+            throw refused(where + "cannot write in the folder " + folder + " (" + reason + ")");
         }
     }
 

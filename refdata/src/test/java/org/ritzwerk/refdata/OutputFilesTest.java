@@ -13,6 +13,7 @@ import java.nio.file.attribute.PosixFilePermissions;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.RitzwerkException;
 
 /**
  * Output files are replaced only when completely written, no temporary file is left, and a
@@ -89,28 +90,28 @@ class OutputFilesTest {
         Path a = folder.resolve("a.csv");
         Path input = folder.resolve("in.csv");
         Files.writeString(input, "x");
-        IllegalArgumentException same = assertThrows(IllegalArgumentException.class, () -> OutputFiles.check(
+        RitzwerkException same = assertThrows(RitzwerkException.class, () -> OutputFiles.check(
                 List.of(new OutputFiles.Named("--out", a), new OutputFiles.Named("--truth",
                         folder.resolve("sub/../a.csv"))), List.of()));
         assertEquals("--out and --truth name the same file: " + folder.resolve("sub/../a.csv")
                 + "; give each output its own file", same.getMessage());
-        IllegalArgumentException overInput = assertThrows(IllegalArgumentException.class, () -> OutputFiles.check(
+        RitzwerkException overInput = assertThrows(RitzwerkException.class, () -> OutputFiles.check(
                 List.of(new OutputFiles.Named("--plot", input)), List.of(new OutputFiles.Named("--data", input))));
         assertEquals("--plot " + input + " is the input given with --data; writing it would destroy the input",
                 overInput.getMessage());
-        IllegalArgumentException noFolder = assertThrows(IllegalArgumentException.class, () -> OutputFiles.check(
+        RitzwerkException noFolder = assertThrows(RitzwerkException.class, () -> OutputFiles.check(
                 List.of(new OutputFiles.Named("--out", folder.resolve("none/a.csv"))), List.of()));
         assertEquals("--out " + folder.resolve("none/a.csv") + ": the folder " + folder.resolve("none")
                 + " does not exist", noFolder.getMessage());
-        IllegalArgumentException notFolder = assertThrows(IllegalArgumentException.class, () -> OutputFiles.check(
+        RitzwerkException notFolder = assertThrows(RitzwerkException.class, () -> OutputFiles.check(
                 List.of(new OutputFiles.Named("--out", input.resolve("a.csv"))), List.of()));
         assertTrue(notFolder.getMessage().endsWith(input + " is not a folder"), notFolder.getMessage());
-        IllegalArgumentException isFolder = assertThrows(IllegalArgumentException.class, () -> OutputFiles.check(
+        RitzwerkException isFolder = assertThrows(RitzwerkException.class, () -> OutputFiles.check(
                 List.of(new OutputFiles.Named("--out", folder)), List.of()));
         assertEquals("--out " + folder + ": is a folder, not a file", isFolder.getMessage());
         // A folder no file can be created in (here /proc, which even root cannot write to).
         if (Files.isDirectory(Path.of("/proc/self"))) {
-            IllegalArgumentException locked = assertThrows(IllegalArgumentException.class, () -> OutputFiles.check(
+            RitzwerkException locked = assertThrows(RitzwerkException.class, () -> OutputFiles.check(
                     List.of(new OutputFiles.Named("--out", Path.of("/proc/a.csv"))), List.of()));
             assertTrue(locked.getMessage().startsWith("--out /proc/a.csv: cannot write in the folder /proc ("),
                     locked.getMessage());

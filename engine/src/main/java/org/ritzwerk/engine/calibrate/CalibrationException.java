@@ -29,6 +29,11 @@ public final class CalibrationException extends RitzwerkException {
      * detector, or its reduced chi-square is above the accepted limit (figures in the message).
      */
     public static final String IMPLAUSIBLE_FIT = "calibrate.implausible-fit";
+    /**
+     * Code: the counts cannot be searched for peaks: too few pixels, every pixel the same or
+     * saturated, or negative counts where none are allowed.
+     */
+    public static final String UNUSABLE_COUNTS = "calibrate.unusable-counts";
 
     /**
      * @param code    one of the codes above
@@ -36,5 +41,14 @@ public final class CalibrationException extends RitzwerkException {
      */
     public CalibrationException(String code, String message) {
         super(code, message);
+    }
+
+    /**
+     * @param code    one of the codes above
+     * @param message what failed, with the figures
+     * @param cause   the underlying failure
+     */
+    public CalibrationException(String code, String message, Throwable cause) {
+        super(code, message, cause);
     }
 }

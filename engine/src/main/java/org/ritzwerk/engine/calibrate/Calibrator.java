@@ -218,6 +218,8 @@ public final class Calibrator {
         Peaks peaks;
         try {
             peaks = finder.find(problem.countsView(), problem.sigmasView());
+        } catch (CalibrationException e) {
+            throw new CalibrationException(e.code(), problem.source() + ": " + e.getMessage(), e);
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException(problem.source() + ": " + e.getMessage(), e);
         }

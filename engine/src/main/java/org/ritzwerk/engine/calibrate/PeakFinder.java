@@ -230,7 +230,7 @@ public final class PeakFinder {
             }
         }
         if (saturatedCount == n) {
-            throw new IllegalArgumentException("all " + n + " pixels are saturated (at or above " + saturationLevel
+            throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, "all " + n + " pixels are saturated (at or above " + saturationLevel
                     + " counts)");
         }
         double firstNoise = Baseline.noise(counts, saturated);
@@ -262,10 +262,11 @@ public final class PeakFinder {
     private void check(double[] counts, double[] sigma) {
         int n = counts.length;
         if (n == 0) {
-            throw new IllegalArgumentException("the spectrum is empty");
+            throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, "the spectrum is empty");
         }
         if (n < MIN_PIXELS) {
-            throw new IllegalArgumentException("a spectrum needs at least " + MIN_PIXELS + " pixels, got " + n);
+            throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, "a spectrum needs at least "
+                    + MIN_PIXELS + " pixels, got " + n);
         }
         for (int i = 0; i < n; i++) {
             double c = counts[i];
@@ -273,7 +274,8 @@ public final class PeakFinder {
                 throw new IllegalArgumentException("pixel " + i + ": counts must be finite, got " + c);
             }
             if (c < 0 && !negativeAllowed) {
-                throw new IllegalArgumentException("pixel " + i + ": counts must not be negative, got " + c
+                throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, "pixel " + i
+                        + ": counts must not be negative, got " + c
                         + " (allow them with withNegativeCountsAllowed(true) for bias-subtracted data)");
             }
         }
@@ -282,7 +284,7 @@ public final class PeakFinder {
             constant = counts[i] == counts[0];
         }
         if (constant) {
-            throw new IllegalArgumentException("the spectrum is constant (all " + n + " pixels are " + counts[0]
+            throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, "the spectrum is constant (all " + n + " pixels are " + counts[0]
                     + " counts): it has no peaks and no noise to measure");
         }
         if (sigma != null) {

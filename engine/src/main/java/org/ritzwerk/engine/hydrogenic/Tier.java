@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.hydrogenic;
 
 import java.util.Locale;
+import org.ritzwerk.RitzwerkException;
 
 /**
  * The level models of a one-electron ion, each adding to the one before. Expected accuracy is
@@ -36,6 +37,9 @@ public enum Tier {
      */
     HYPERFINE;
 
+    /** Error code of a tier name that is not one of the known ones. */
+    public static final String UNKNOWN = "level-model.unknown";
+
     /** @return the lower-case name used on the command line, e.g. {@code "qed"} */
     public String id() {
         return name().toLowerCase(Locale.ROOT);
@@ -44,7 +48,7 @@ public enum Tier {
     /**
      * @param id a tier name, case-insensitive: bohr, dirac, qed or hyperfine
      * @return the tier
-     * @throws IllegalArgumentException naming the known tiers
+     * @throws RitzwerkException with code {@link #UNKNOWN}, naming the known tiers
      */
     public static Tier fromId(String id) {
         for (Tier tier : values()) {
@@ -52,6 +56,6 @@ public enum Tier {
                 return tier;
             }
         }
-        throw new IllegalArgumentException("unknown level model '" + id + "'; known: bohr, dirac, qed, hyperfine");
+        throw new RitzwerkException(UNKNOWN, "unknown level model '" + id + "'; known: bohr, dirac, qed, hyperfine");
     }
 }

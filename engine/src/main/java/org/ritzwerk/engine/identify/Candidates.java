@@ -173,7 +173,7 @@ public final class Candidates {
 
         /**
          * @return the candidates
-         * @throws IllegalArgumentException when no candidate line lies in the window
+         * @throws IdentificationException when no candidate line lies in the window
          */
         public Candidates build() {
             LineCatalog.Builder builder = LineCatalog.builder();
@@ -183,7 +183,7 @@ public final class Candidates {
                 source.accept(builder);
             }
             if (count == 0) {
-                throw new IllegalArgumentException("no candidate line lies in the range of the peaks ("
+                throw new IdentificationException(IdentificationException.NO_CANDIDATES, "no candidate line lies in the range of the peaks ("
                         + String.format(Locale.ROOT, "%.6g to %.6g nm in vacuum", lo * 1e9, hi * 1e9) + ")");
             }
             return new Candidates(builder.build(), Map.copyOf(multiplets));

@@ -161,7 +161,7 @@ public final class Identifier {
      * @param peaks the measured peaks
      * @param lines the candidate lines
      * @return the identification of every peak, in the peaks' order
-     * @throws IllegalArgumentException when a k-sigma tolerance meets peaks and lines that both
+     * @throws IdentificationException when a k-sigma tolerance meets peaks and lines that both
      *                                  lack uncertainties (the window would be empty)
      */
     public Identification identify(PeakList peaks, LineCatalog lines) {
@@ -1146,7 +1146,7 @@ public final class Identifier {
                 any |= s > 0;
             }
             if (!any) {
-                throw new IllegalArgumentException("a k-sigma tolerance needs uncertainties, but neither the peaks nor "
+                throw new IdentificationException(IdentificationException.NO_WINDOW, "a k-sigma tolerance needs uncertainties, but neither the peaks nor "
                         + "the lines have any; give them, or use an absolute or relative tolerance");
             }
         }

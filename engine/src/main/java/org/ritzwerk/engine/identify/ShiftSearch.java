@@ -50,7 +50,7 @@ public final class ShiftSearch {
      * @param lines      rest-frame lines
      * @param maxSpeed   the largest |v| to search, m/s; positive, below c / 10
      * @return the redshift with its uncertainty
-     * @throws IllegalArgumentException when no peak-line pair lies within the range
+     * @throws IdentificationException when no peak-line pair lies within the range
      */
     public static Fit redshift(Identifier identifier, PeakList peaks, LineCatalog lines, double maxSpeed) {
         if (!(maxSpeed > 0) || maxSpeed >= PhysicalConstants.C / 10) {
@@ -121,7 +121,7 @@ public final class ShiftSearch {
             stride *= 2;
         }
         if (size == 0) {
-            throw new IllegalArgumentException(relative
+            throw new IdentificationException(IdentificationException.NO_PAIRS, relative
                     ? String.format(java.util.Locale.ROOT, "no peak lies within +-%.6g km/s of any line; widen the "
                             + "velocity range or check the lines", range * PhysicalConstants.C / 1e3)
                     : String.format(java.util.Locale.ROOT, "no peak lies within +-%.6g nm of any line; widen the "
@@ -195,7 +195,7 @@ public final class ShiftSearch {
         double sigma = peaks.sigma(mid);
         double width = tolerance.halfWidth(x, sigma > 0 ? sigma : 0, lines.maxSigma()) / x;
         if (!(width > 0)) {
-            throw new IllegalArgumentException("the tolerance gives no window at " + x + " m; give uncertainties or "
+            throw new IdentificationException(IdentificationException.NO_WINDOW, "the tolerance gives no window at " + x + " m; give uncertainties or "
                     + "use an absolute or relative tolerance");
         }
         return width;

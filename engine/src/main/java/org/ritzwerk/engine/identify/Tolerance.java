@@ -63,37 +63,50 @@ public record Tolerance(Kind kind, double value) {
      *
      * @param text the tolerance
      * @return the tolerance
-     * @throws IllegalArgumentException naming the text and giving examples when it cannot be read,
+     * @throws IdentificationException naming the text and giving examples when it cannot be read,
      *         or when its value is not finite and positive
      */
     public static Tolerance parse(String text) {
         String t = text.strip();
         try {
-            if (t.endsWith("sigma")) {
-                return kSigma(Double.parseDouble(t.substring(0, t.length() - 5).strip()));
-            }
-            if (t.endsWith("ppm")) {
-                return relative(Double.parseDouble(t.substring(0, t.length() - 3).strip()) * 1e-6);
-            }
-            if (t.startsWith("R=")) {
-                return relative(1 / Double.parseDouble(t.substring(2).strip()));
-            }
-            String[] parts = t.split("\\s+");
-            if (parts.length == 2) {
-                Unit unit = Unit.fromSymbol(parts[1]).orElse(null);
-                if (unit != null && unit.kind() == org.ritzwerk.quantity.Kind.WAVELENGTH) {
-                    return absolute(unit.toSi(Double.parseDouble(parts[0])));
-                }
-                if (unit != null && unit.kind() != org.ritzwerk.quantity.Kind.TEMPERATURE) {
-                    throw new IllegalArgumentException("a tolerance in " + unit.symbol() + " is not supported yet; "
-                            + "give a wavelength width (nm, pm as 0.001 nm, Angstrom), ppm or R=");
-                }
+            Tolerance parsed = read(t);
+            if (parsed != null) {
+                return parsed;
             }
         } catch (NumberFormatException e) {
             // reported below
+        } catch (IllegalArgumentException e) {
+            throw new IdentificationException(IdentificationException.BAD_TOLERANCE, "tolerance '" + text + "': "
+                    + e.getMessage(), e);
         }
-        throw new IllegalArgumentException("cannot read tolerance '" + text + "'; examples: \"5 sigma\", "
-                + "\"0.02 nm\", \"20 ppm\", \"R=20000\"");
+        throw new IdentificationException(IdentificationException.BAD_TOLERANCE, "cannot read tolerance '" + text
+                + "'; examples: \"5 sigma\", \"0.02 nm\", \"20 ppm\", \"R=20000\"");
+    }
+
+    /** @return the tolerance the text gives, or null when its form is not one of the known ones */
+    private static Tolerance read(String t) {
+        if (t.endsWith("sigma")) {
+            return kSigma(Double.parseDouble(t.substring(0, t.length() - 5).strip()));
+        }
+        if (t.endsWith("ppm")) {
+            return relative(Double.parseDouble(t.substring(0, t.length() - 3).strip()) * 1e-6);
+        }
+        if (t.startsWith("R=")) {
+            return relative(1 / Double.parseDouble(t.substring(2).strip()));
+        }
+        String[] parts = t.split("\\s+");
+        if (parts.length == 2) {
+            Unit unit = Unit.fromSymbol(parts[1]).orElse(null);
+            if (unit != null && unit.kind() == org.ritzwerk.quantity.Kind.WAVELENGTH) {
+                return absolute(unit.toSi(Double.parseDouble(parts[0])));
+            }
+            if (unit != null && unit.kind() != org.ritzwerk.quantity.Kind.TEMPERATURE) {
+                throw new IdentificationException(IdentificationException.BAD_TOLERANCE, "a tolerance in "
+                        + unit.symbol() + " is not supported yet; give a wavelength width (nm, pm as 0.001 nm,"
+                        + " Angstrom), ppm or R=");
+            }
+        }
+        return null;
     }
 
     /** @return the half-width at a wavelength for given standard uncertainties, metres */

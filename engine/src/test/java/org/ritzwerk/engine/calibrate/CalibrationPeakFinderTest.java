@@ -162,20 +162,20 @@ class CalibrationPeakFinderTest {
     @Test
     void badInputsAreNamed() {
         PeakFinder finder = PeakFinder.defaults();
-        assertMessage("the spectrum is empty", () -> finder.find(new double[0]));
-        assertMessage("at least 8 pixels", () -> finder.find(new double[5]));
+        assertUnusable("the spectrum is empty", () -> finder.find(new double[0]));
+        assertUnusable("at least 8 pixels", () -> finder.find(new double[5]));
         double[] counts = render(64, 100, new double[] {30}, new double[] {1e3}, 3);
         double[] nan = counts.clone();
         nan[17] = Double.NaN;
         assertMessage("pixel 17: counts must be finite", () -> finder.find(nan));
         double[] negative = counts.clone();
         negative[3] = -2;
-        assertMessage("pixel 3: counts must not be negative", () -> finder.find(negative));
+        assertUnusable("pixel 3: counts must not be negative", () -> finder.find(negative));
         assertEquals(1, finder.withNegativeCountsAllowed(true).find(negative).size(), "allowed when asked");
         double[] constant = new double[64];
         Arrays.fill(constant, 7);
-        assertMessage("the spectrum is constant (all 64 pixels are 7.0 counts)", () -> finder.find(constant));
-        assertMessage("all 64 pixels are saturated (at or above 50.0 counts)",
+        assertUnusable("the spectrum is constant (all 64 pixels are 7.0 counts)", () -> finder.find(constant));
+        assertUnusable("all 64 pixels are saturated (at or above 50.0 counts)",
                 () -> finder.withSaturationLevel(50).find(counts));
         assertMessage("one value per pixel (64), got 3", () -> finder.find(counts, new double[3]));
         double[] sigma = new double[64];
@@ -196,6 +196,13 @@ class CalibrationPeakFinderTest {
             sum += term / (2 * k + 1);
         }
         return 0.5 + sum / Math.sqrt(Math.PI);
+    }
+
+    /** Counts that hold nothing to search are bad input (a CalibrationException with its code), not a broken precondition. */
+    static void assertUnusable(String fragment, org.junit.jupiter.api.function.Executable call) {
+        CalibrationException e = assertThrows(CalibrationException.class, call);
+        assertEquals(CalibrationException.UNUSABLE_COUNTS, e.code());
+        assertTrue(e.getMessage().contains(fragment), "message '" + e.getMessage() + "' lacks '" + fragment + "'");
     }
 
     static void assertMessage(String fragment, org.junit.jupiter.api.function.Executable call) {

@@ -97,20 +97,23 @@ class IdentificationJobTest {
         assertEquals(2e-11, Tolerance.parse("0.02 nm").value(), 1e-26);
         assertEquals(Tolerance.relative(20 * 1e-6), Tolerance.parse("20 ppm"));
         assertEquals(Tolerance.relative(1 / 20000.0), Tolerance.parse("R=20000"));
-        IllegalArgumentException bad = assertThrows(IllegalArgumentException.class, () -> Tolerance.parse("wide"));
+        // Text that does not read is bad input (a RitzwerkException with a code), never an IllegalArgumentException.
+        IdentificationException bad = assertThrows(IdentificationException.class, () -> Tolerance.parse("wide"));
         assertTrue(bad.getMessage().contains("'wide'") && bad.getMessage().contains("5 sigma"), bad.getMessage());
-        assertTrue(assertThrows(IllegalArgumentException.class, () -> Tolerance.parse("5 Hz")).getMessage()
+        assertEquals(IdentificationException.BAD_TOLERANCE, bad.code());
+        assertTrue(assertThrows(IdentificationException.class, () -> Tolerance.parse("5 Hz")).getMessage()
                 .contains("not supported"));
-        assertTrue(assertThrows(IllegalArgumentException.class, () -> Tolerance.parse("0 nm")).getMessage()
+        assertTrue(assertThrows(IdentificationException.class, () -> Tolerance.parse("0 nm")).getMessage()
                 .contains("finite and positive"));
     }
 
     @Test
     void candidatesRefuseAnEmptyWindowAndKeepMultipletPhysics() {
         HydrogenLikeModel model = HydrogenLikeModel.of(Scenes.PROTON, Tier.QED);
-        IllegalArgumentException none = assertThrows(IllegalArgumentException.class,
+        IdentificationException none = assertThrows(IdentificationException.class,
                 () -> Candidates.inWindow(1.0e-9, 1.1e-9).hydrogenLike(H, model, 5, false).build());
         assertTrue(none.getMessage().contains("no candidate line"), none.getMessage());
+        assertEquals(IdentificationException.NO_CANDIDATES, none.code());
         assertThrows(IllegalArgumentException.class, () -> Candidates.inWindow(5e-7, 4e-7));
         assertThrows(IllegalArgumentException.class, () -> Candidates.inWindow(4e-7, 5e-7).excitationTemperature(0));
         Candidates components = Candidates.inWindow(650e-9, 660e-9).hydrogenLike(H, model, 5, true).build();

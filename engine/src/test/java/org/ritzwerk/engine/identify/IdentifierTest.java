@@ -308,7 +308,7 @@ class IdentifierTest {
                         Medium.vacuum())).getMessage());
         assertEquals("a absolute tolerance must be finite and positive, got 0.0",
                 assertThrows(IllegalArgumentException.class, () -> Tolerance.absolute(0)).getMessage());
-        assertTrue(assertThrows(IllegalArgumentException.class, () -> Identifier.of(Tolerance.kSigma(3)).identify(
+        assertTrue(assertThrows(IdentificationException.class, () -> Identifier.of(Tolerance.kSigma(3)).identify(
                 PeakList.ofVacuumMetres(new double[] {500e-9}, null), LINES)).getMessage()
                 .startsWith("a k-sigma tolerance needs uncertainties"));
         assertEquals("a line catalog needs at least one line",
