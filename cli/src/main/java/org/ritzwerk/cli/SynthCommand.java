@@ -371,11 +371,18 @@ final class SynthCommand implements Callable<Integer> {
                             + "' is not a number");
                 }
             }
+            PixelGrid grid;
             try {
-                return PixelGrid.dispersion(c, pixels);
+                grid = PixelGrid.dispersion(c, pixels);
             } catch (IllegalArgumentException e) {
                 throw new OptionException("--dispersion: " + e.getMessage(), e);
             }
+            double first = Math.min(grid.edge(0), grid.edge(pixels));
+            if (!(first > 0)) {
+                throw new OptionException("--dispersion: the wavelength must be above 0 nm on every pixel, but the"
+                        + " first pixel's edge is at " + OptionRules.show(first) + " nm");
+            }
+            return grid;
         }
         if (from == null || to == null) {
             throw new OptionException("give --from and --to (or --dispersion)");

@@ -227,6 +227,16 @@ class SynthCommandTest {
     }
 
     @Test
+    void aDispersionReachingZeroWavelengthIsBadInputNotABug() {
+        // -5 + p nm: the first pixel's edge (p = -0.5) is at -5.5 nm.
+        CliTest.Run run = CliTest.run("synth", "--species", "H", "--dispersion", "-5,1", "--pixels", "100",
+                "--temperature", "9000");
+        assertEquals(2, run.code(), run.err());
+        assertEquals("ritzwerk synth: --dispersion: the wavelength must be above 0 nm on every pixel, but the first"
+                + " pixel's edge is at -5.5 nm", run.err().strip());
+    }
+
+    @Test
     void aLampSeenThroughADispersionPolynomial() {
         // Ne I 585.24879 nm air (lamp-ne-i, Sansonetti & Martin 2005) lands where the polynomial
         // 540 + 0.06 p - 2e-6 p^2 reaches it: p = 862.16 (solved by hand below).
