@@ -345,12 +345,15 @@ public final class PeakFinder {
                 int a = found.get(k);
                 int b = found.get(k + 1);
                 double dip = Double.POSITIVE_INFINITY;
+                // One saturated plateau (noise-free flat top) when every pixel between is saturated;
+                // two saturated lines with unsaturated pixels between are two peaks.
+                boolean flat = true;
                 for (int i = a; i <= b; i++) {
                     dip = Math.min(dip, smooth[i]);
+                    flat &= saturated[i];
                 }
                 boolean aLower = smooth[a] < smooth[b];
                 int lower = aLower ? a : b;
-                boolean flat = saturated[a] && saturated[b];
                 if (flat || smooth[lower] - dip < PROMINENCE * localSigma(sigma, noise, smooth[lower], lower)) {
                     found.remove(aLower ? k : k + 1);
                     merged = true;
