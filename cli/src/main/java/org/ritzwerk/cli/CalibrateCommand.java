@@ -169,7 +169,7 @@ final class CalibrateCommand implements Callable<Integer> {
                         calibration.pairLabels(), saturatedLines(calibration))));
             }
             if (plot != null) {
-                drawResiduals(batch, solution);
+                drawResiduals(batch, calibration);
             }
             batch.commit();
         }
@@ -399,16 +399,10 @@ final class CalibrateCommand implements Callable<Integer> {
         table.finish();
     }
 
-    private void drawResiduals(OutputFiles.Batch batch, DispersionSolution solution) throws IOException {
-        List<double[]> used = new ArrayList<>();
-        List<double[]> rejected = new ArrayList<>();
-        for (int i = 0; i < solution.size(); i++) {
-            double[] point = {solution.pixel(i), solution.residualNm(i) * 1e3, solution.sigmaNm(i) * 1e3};
-            (solution.isRejected(i) ? rejected : used).add(point);
-        }
-        Plots.residuals(batch, plot, String.format(Locale.ROOT, "Dispersion residuals: degree %d, RMS %.3g pm (%.3g px)",
-                solution.degree(), solution.rmsNm() * 1e3, solution.rmsPixels()), "pixel",
-                "residual (pm, " + solution.medium().label() + ")", used, rejected);
+    private void drawResiduals(OutputFiles.Batch batch, Calibration calibration) throws IOException {
+        DispersionSolution solution = calibration.solution();
+        Plots.calibrationResiduals(batch, plot, String.format(Locale.ROOT, "Dispersion residuals: degree %d, RMS %.3g"
+                + " pm (%.3g px)", solution.degree(), solution.rmsNm() * 1e3, solution.rmsPixels()), calibration);
     }
 
     private int applySolution(SpectrumFiles.Spectrum spectrum) throws IOException {

@@ -197,15 +197,12 @@ final class DemoScenario {
         CalibrationFiles.write(calibrationFile, solution, PIXELS, "demo: neon-lamp.csv, lamp-ne-i",
                 calibration.pairLabels());
         results.files.add(calibrationFile);
-        List<double[]> used = new ArrayList<>();
-        List<double[]> rejected = new ArrayList<>();
-        for (int i = 0; i < solution.size(); i++) {
-            double[] point = {solution.pixel(i), solution.residualNm(i) * 1e3, solution.sigmaNm(i) * 1e3};
-            (solution.isRejected(i) ? rejected : used).add(point);
-        }
         Path residuals = folder.resolve("calibration-residuals.png");
-        Plots.residuals(residuals, String.format(Locale.ROOT, "Neon calibration residuals: degree %d, RMS %.3f pixel",
-                solution.degree(), solution.rmsPixels()), "pixel", "residual (pm, standard air)", used, rejected);
+        try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
+            Plots.calibrationResiduals(batch, residuals, String.format(Locale.ROOT, "Neon calibration residuals:"
+                    + " degree %d, RMS %.3f pixel", solution.degree(), solution.rmsPixels()), calibration);
+            batch.commit();
+        }
         results.files.add(residuals);
         out.println();
         return solution;
@@ -319,7 +316,7 @@ final class DemoScenario {
         try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
             Plots.lineChart(batch, plotFile, "H-D-He discharge, Wrenfield Bench (invented): identified lines",
                     "wavelength (nm, standard air, from the neon calibration)", "counts per pixel",
-                    solution.pixelCentreWavelengths(PIXELS), counts, labels);
+                    solution.pixelCentreWavelengths(PIXELS), counts, labels, false);
             batch.commit();
         }
         results.files.add(plotFile);

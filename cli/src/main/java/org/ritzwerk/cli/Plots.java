@@ -6,20 +6,25 @@ import java.awt.Font;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Locale;
 import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.annotations.XYTextAnnotation;
+import org.jfree.chart.axis.LogAxis;
 import org.jfree.chart.axis.NumberAxis;
 import org.jfree.chart.plot.ValueMarker;
-import org.jfree.chart.renderer.xy.XYErrorRenderer;
-import org.jfree.chart.util.ShapeUtils;
-import org.jfree.data.xy.YIntervalSeries;
-import org.jfree.data.xy.YIntervalSeriesCollection;
 import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.renderer.xy.XYErrorRenderer;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.chart.ui.TextAnchor;
+import org.jfree.chart.util.ShapeUtils;
 import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
+import org.jfree.data.xy.YIntervalSeries;
+import org.jfree.data.xy.YIntervalSeriesCollection;
+import org.ritzwerk.engine.calibrate.Calibration;
+import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.engine.calibrate.LampMatch;
 import org.ritzwerk.refdata.OutputFiles;
 
 /** PNG charts drawn with JFreeChart, headless. */
@@ -48,10 +53,12 @@ final class Plots {
      * @param x      x values, ascending
      * @param y      y values
      * @param labels labels to draw (at most a few dozen read well)
+     * @param log    a logarithmic y axis (values at or below its floor, a millionth of the top or the
+     *               smallest positive value, are drawn on the floor)
      * @throws IOException when the file cannot be written
      */
     static void lineChart(OutputFiles.Batch batch, Path file, String title, String xTitle, String yTitle, double[] x, double[] y,
-            List<Label> labels) throws IOException {
+            List<Label> labels, boolean log) throws IOException {
         headless();
         XYSeries series = new XYSeries(yTitle, false, true);
         // A chart cannot show more points than it has pixels; keep each bin's extremes.
@@ -74,7 +81,18 @@ final class Plots {
         }
         NumberAxis xAxis = new NumberAxis(xTitle);
         xAxis.setAutoRangeIncludesZero(false);
-        NumberAxis yAxis = new NumberAxis(yTitle);
+        double floor = log ? logFloor(y, yMax) : 0;
+        if (log) {
+            for (int k = 0; k < series.getItemCount(); k++) {
+                series.updateByIndex(k, Math.max(floor, series.getY(k).doubleValue()));
+            }
+        }
+        org.jfree.chart.axis.ValueAxis yAxis = new NumberAxis(yTitle);
+        if (log) {
+            LogAxis decades = new LogAxis(yTitle + " (log scale)");
+            decades.setTickUnit(new org.jfree.chart.axis.NumberTickUnit(1));   // one tick per decade
+            yAxis = decades;
+        }
         XYLineAndShapeRenderer renderer = new XYLineAndShapeRenderer(true, false);
         renderer.setSeriesPaint(0, new Color(0x1f, 0x4e, 0x79));
         renderer.setSeriesStroke(0, new BasicStroke(1.0f));
@@ -83,90 +101,140 @@ final class Plots {
         plot.setDomainGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
         plot.setRangeGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
         Font font = new Font(Font.SANS_SERIF, Font.PLAIN, 11);
-        double upper = axisTop(x, y, yMax, labels, font);
+        double upper = log ? logAxisTop(x, y, yMax, floor, labels, font) : axisTop(x, y, yMax, labels, font);
         for (Label label : labels) {
             int i = nearest(x, label.x());
-            XYTextAnnotation text = new XYTextAnnotation(label.text(), label.x(), y[i] + 0.03 * yMax);
+            double base = log ? Math.max(floor, y[i]) * LOG_LABEL_LIFT : y[i] + 0.03 * yMax;
+            XYTextAnnotation text = new XYTextAnnotation(label.text(), label.x(), base);
             text.setFont(font);
             text.setRotationAngle(-Math.PI / 2);
             text.setTextAnchor(TextAnchor.CENTER_LEFT);
             text.setRotationAnchor(TextAnchor.CENTER_LEFT);
             plot.addAnnotation(text);
         }
-        yAxis.setUpperBound(upper);
+        if (log) {
+            yAxis.setRange(floor, upper);
+        } else {
+            yAxis.setUpperBound(upper);
+        }
         JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, false);
         chart.setBackgroundPaint(Color.WHITE);
         batch.bytes(file, out -> ChartUtils.writeChartAsPNG(out, chart, 1400, CHART_PIXELS));
     }
 
     /**
-     * A scatter chart of residuals with error bars: used points filled, rejected ones as crosses,
-     * and the zero line.
+     * The residuals of a calibration against pixel, in pm, with their standard uncertainties as
+     * error bars: the fitted pairs as dots, pairs the fit rejected as crosses, saturated pairs
+     * (paired but left out of the fit) as open squares, each class in the legend only when it has
+     * members. The scale is set by the fitted pairs (1.3 times their largest residual plus
+     * uncertainty, at least 3 RMS); a point beyond it is drawn on the edge as a triangle pointing
+     * out, with its error bar cut, so one wild pair cannot flatten the others.
      *
-     * @param file     the PNG to write
-     * @param title    chart title
-     * @param xTitle   x axis title
-     * @param yTitle   y axis title
-     * @param used     points {x, y, sigma} that were used
-     * @param rejected points {x, y, sigma} that were rejected
-     * @throws IOException when the file cannot be written
+     * @param batch       the batch the PNG joins
+     * @param file        the PNG to write
+     * @param title       chart title
+     * @param calibration the calibration
+     * @throws IOException when the temporary file cannot be written
      */
-    static void residuals(Path file, String title, String xTitle, String yTitle, List<double[]> used,
-            List<double[]> rejected) throws IOException {
-        try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
-            residuals(batch, file, title, xTitle, yTitle, used, rejected);
-            batch.commit();
-        }
+    static void calibrationResiduals(OutputFiles.Batch batch, Path file, String title, Calibration calibration)
+            throws IOException {
+        JFreeChart chart = residualChart(title, calibration);
+        batch.bytes(file, out -> ChartUtils.writeChartAsPNG(out, chart, 1200, 600));
     }
 
     /**
-     * As {@link #residuals(Path, String, String, String, List, List)}, staged in a batch that the
-     * caller commits with its other outputs.
-     *
-     * @param batch    the batch the PNG joins
-     * @param file     the PNG to write
-     * @param title    chart title
-     * @param xTitle   x axis title
-     * @param yTitle   y axis title
-     * @param used     points {x, y, sigma} that were used
-     * @param rejected points {x, y, sigma} that were rejected
-     * @throws IOException when the temporary file cannot be written
+     * @param title       chart title
+     * @param calibration the calibration
+     * @return the chart {@link #calibrationResiduals} draws
      */
-    static void residuals(OutputFiles.Batch batch, Path file, String title, String xTitle, String yTitle,
-            List<double[]> used, List<double[]> rejected) throws IOException {
+    static JFreeChart residualChart(String title, Calibration calibration) {
         headless();
-        YIntervalSeriesCollection data = new YIntervalSeriesCollection();
-        YIntervalSeries usedSeries = new YIntervalSeries("used");
-        for (double[] p : used) {
-            double s = Double.isFinite(p[2]) ? p[2] : 0;
-            usedSeries.add(p[0], p[1], p[1] - s, p[1] + s);
+        DispersionSolution solution = calibration.solution();
+        LampMatch saturated = calibration.saturatedPairs();
+        double limit = 3 * solution.rmsNm() * 1e3;
+        for (int i = 0; i < solution.size(); i++) {
+            if (!solution.isRejected(i)) {
+                limit = Math.max(limit, 1.3 * (Math.abs(solution.residualNm(i)) + solution.sigmaNm(i)) * 1e3);
+            }
         }
-        YIntervalSeries rejectedSeries = new YIntervalSeries("rejected");
-        for (double[] p : rejected) {
-            double s = Double.isFinite(p[2]) ? p[2] : 0;
-            rejectedSeries.add(p[0], p[1], p[1] - s, p[1] + s);
+        limit = limit > 0 && Double.isFinite(limit) ? limit : 1;
+        Classes classes = new Classes(limit);
+        for (int i = 0; i < solution.size(); i++) {
+            classes.add(solution.isRejected(i) ? "rejected" : "fitted", solution.pixel(i),
+                    solution.residualNm(i) * 1e3, solution.sigmaNm(i) * 1e3);
         }
-        data.addSeries(usedSeries);
-        data.addSeries(rejectedSeries);
-        NumberAxis xAxis = new NumberAxis(xTitle);
+        for (int i = 0; i < saturated.size(); i++) {
+            double p = saturated.pixel(i);
+            classes.add("saturated (not fitted)", p, calibration.saturatedResidualNm(i) * 1e3,
+                    saturated.pixelSigma(i) * Math.abs(solution.dispersionAt(p)) * 1e3);
+        }
+        NumberAxis xAxis = new NumberAxis("pixel");
         xAxis.setAutoRangeIncludesZero(false);
-        NumberAxis yAxis = new NumberAxis(yTitle);
+        NumberAxis yAxis = new NumberAxis("residual (pm, " + solution.medium().label() + ")");
+        yAxis.setRange(-limit, limit);
         XYErrorRenderer renderer = new XYErrorRenderer();
         renderer.setDrawXError(false);
-        renderer.setSeriesPaint(0, new Color(0x1f, 0x4e, 0x79));
-        renderer.setSeriesPaint(1, new Color(0xb0, 0x3a, 0x2e));
-        renderer.setSeriesShape(0, new java.awt.geom.Ellipse2D.Double(-3, -3, 6, 6));
-        renderer.setSeriesShape(1, ShapeUtils.createDiagonalCross(4, 0.6f));
         renderer.setDefaultShapesVisible(true);
         renderer.setDefaultLinesVisible(false);
+        YIntervalSeriesCollection data = classes.series(renderer);
         XYPlot plot = new XYPlot(data, xAxis, yAxis, renderer);
         plot.setBackgroundPaint(Color.WHITE);
         plot.setDomainGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
         plot.setRangeGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
         plot.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(1.0f)));
-        JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, true);
+        String shownTitle = classes.beyond == 0 ? title : title + String.format(Locale.ROOT,
+                " (%d beyond +-%.3g pm, drawn on the edge)", classes.beyond, limit);
+        JFreeChart chart = new JFreeChart(shownTitle, JFreeChart.DEFAULT_TITLE_FONT, plot, true);
         chart.setBackgroundPaint(Color.WHITE);
-        batch.bytes(file, out -> ChartUtils.writeChartAsPNG(out, chart, 1200, 600));
+        return chart;
+    }
+
+    /** The residual chart's points sorted into classes, and the ones beyond the scale into their own. */
+    private static final class Classes {
+        private static final String[] NAMES = {"fitted", "rejected", "saturated (not fitted)"};
+        private static final Color[] COLOURS = {new Color(0x1f, 0x4e, 0x79), new Color(0xb0, 0x3a, 0x2e),
+            new Color(0x8a, 0x6d, 0x1a)};
+        private final double limit;
+        private final java.util.Map<String, YIntervalSeries> inside = new java.util.LinkedHashMap<>();
+        private final java.util.Map<String, YIntervalSeries> outside = new java.util.LinkedHashMap<>();
+        private int beyond;
+
+        Classes(double limit) {
+            this.limit = limit;
+        }
+
+        void add(String name, double x, double y, double sigma) {
+            double s = Double.isFinite(sigma) ? sigma : 0;
+            if (Math.abs(y) <= limit) {
+                inside.computeIfAbsent(name, YIntervalSeries::new).add(x, y, y - s, y + s);
+                return;
+            }
+            beyond++;
+            double edge = Math.copySign(limit, y);
+            outside.computeIfAbsent(name, key -> new YIntervalSeries(key + ", beyond the scale")).add(x, edge, edge, edge);
+        }
+
+        /** @return the non-empty series, each given its class's colour and shape on the renderer */
+        YIntervalSeriesCollection series(XYErrorRenderer renderer) {
+            YIntervalSeriesCollection data = new YIntervalSeriesCollection();
+            for (int k = 0; k < NAMES.length; k++) {
+                for (boolean in : new boolean[] {true, false}) {
+                    YIntervalSeries series = (in ? inside : outside).get(NAMES[k]);
+                    if (series == null) {
+                        continue;
+                    }
+                    int index = data.getSeriesCount();
+                    data.addSeries(series);
+                    renderer.setSeriesPaint(index, COLOURS[k]);
+                    renderer.setSeriesShape(index, !in ? ShapeUtils.createUpTriangle(5)
+                            : k == 0 ? new java.awt.geom.Ellipse2D.Double(-3, -3, 6, 6)
+                            : k == 1 ? ShapeUtils.createDiagonalCross(4, 0.6f)
+                            : new java.awt.geom.Rectangle2D.Double(-3.5, -3.5, 7, 7));
+                    renderer.setSeriesShapesFilled(index, in && k != 2);
+                }
+            }
+            return data;
+        }
     }
 
     /**
@@ -184,6 +252,39 @@ final class Plots {
             upper = Math.max(upper, base / (1 - Math.min(share, 0.8)));
         }
         return upper;
+    }
+
+    /** How far above its line a label starts on a logarithmic axis, as a factor. */
+    private static final double LOG_LABEL_LIFT = 1.5;
+
+    /** @return the lowest value a logarithmic axis shows: the smallest positive value, at least a millionth of the top */
+    static double logFloor(double[] y, double yMax) {
+        double top = yMax > 0 ? yMax : 1;
+        double smallest = top;
+        for (double v : y) {
+            if (v > 0 && v < smallest) {
+                smallest = v;
+            }
+        }
+        return Math.max(smallest, top * 1e-6) * 0.8;
+    }
+
+    /**
+     * As {@link #axisTop} on a logarithmic axis: every label, standing from LOG_LABEL_LIFT above
+     * its line, ends inside the data area, which reaches at least a decade above the highest value.
+     */
+    static double logAxisTop(double[] x, double[] y, double yMax, double floor, List<Label> labels, Font font) {
+        java.awt.FontMetrics metrics = new java.awt.image.BufferedImage(1, 1, java.awt.image.BufferedImage.TYPE_INT_RGB)
+                .createGraphics().getFontMetrics(font);
+        double top = Math.log10(Math.max(yMax, floor) * 10);
+        double bottom = Math.log10(floor);
+        for (Label label : labels) {
+            double base = Math.log10(Math.max(floor, y[nearest(x, label.x())]) * LOG_LABEL_LIFT);
+            double share = Math.min((metrics.stringWidth(label.text()) + 8.0) / PLOT_PIXELS, 0.8);
+            // base + share (top - bottom) <= top
+            top = Math.max(top, (base - share * bottom) / (1 - share));
+        }
+        return Math.pow(10, top);
     }
 
     private static int nearest(double[] x, double at) {

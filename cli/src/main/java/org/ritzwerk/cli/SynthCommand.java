@@ -163,6 +163,10 @@ final class SynthCommand implements Callable<Integer> {
     @Option(names = "--plot", paramLabel = "PNG", description = "Also draw the spectrum, strongest lines labelled, into this PNG.")
     Path plot;
 
+    @Option(names = "--plot-scale", paramLabel = "SCALE", defaultValue = "linear",
+            description = "Counts axis of --plot: linear, or log where weak lines matter. Default: ${DEFAULT-VALUE}.")
+    String plotScale;
+
     @Option(names = "--threads", paramLabel = "N",
             description = "Threads for rendering; the result is the same for any number. Default: all processors.")
     Integer threads;
@@ -344,6 +348,10 @@ final class SynthCommand implements Callable<Integer> {
         if (continuumTemperature != null) {
             OptionRules.range("--continuum-temperature", continuumTemperature, 0, false, Math.nextDown(1e9),
                     "a temperature above 0 and below 1e9 K");
+        }
+        rules.refuseUnless("--plot-scale", plot != null, "without --plot");
+        if (!plotScale.equals("linear") && !plotScale.equals("log")) {
+            throw new OptionException("--plot-scale must be linear or log, got '" + plotScale + "'");
         }
         rules.refuseUnless("--read-noise", !noNoise, "with --no-noise");
         rules.refuseUnless("--seed", !noNoise, "with --no-noise");
@@ -545,17 +553,21 @@ final class SynthCommand implements Callable<Integer> {
         Arrays.sort(order, (a, b) -> Double.compare(spectrum.lineCounts(b), spectrum.lineCounts(a)));
         List<Plots.Label> labels = new ArrayList<>();
         double span = grid.edge(grid.pixels()) - grid.edge(0);
+        boolean log = plotScale.equals("log");
+        // Only lines that show on the chosen scale get a label: on a linear axis a line with a
+        // hundredth of the strongest line's counts is a bump a few pixels high at best.
+        double visible = (order.length == 0 ? 0 : spectrum.lineCounts(order[0])) * (log ? 1e-5 : 1e-2);
         for (int i : order) {
             double at = lines.position(i);
             boolean crowded = labels.stream().anyMatch(label -> Math.abs(label.x() - at) < 0.012 * span);
             if (labels.size() < 25 && !crowded && at > grid.edge(0) && at < grid.edge(grid.pixels())
-                    && spectrum.lineCounts(i) > 0) {
+                    && spectrum.lineCounts(i) > 0 && spectrum.lineCounts(i) >= visible) {
                 labels.add(new Plots.Label(at, lines.label(i)));
             }
         }
-        Plots.lineChart(batch, plot, "Synthetic spectrum: " + emitters() + ", T = " + temperature + " K"
-                + (electronDensity == null ? "" : ", ne = " + electronDensity + " m^-3"),
-                "wavelength (nm, " + medium + ")", "counts per pixel", x, spectrum.counts(), labels);
+        Plots.lineChart(batch, plot, "Synthetic spectrum: " + emitters() + ", T = " + OptionRules.show(temperature)
+                + " K" + (electronDensity == null ? "" : ", ne = " + OptionRules.show(electronDensity) + " m^-3"),
+                "wavelength (nm, " + medium + ")", "counts per pixel", x, spectrum.counts(), labels, log);
     }
 
     private String emitters() {

@@ -4,10 +4,27 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.awt.Font;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
+import org.jfree.chart.plot.XYPlot;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.calibrate.Calibration;
+import org.ritzwerk.engine.calibrate.CalibrationProblem;
+import org.ritzwerk.engine.calibrate.Calibrator;
+import org.ritzwerk.engine.calibrate.LampSet;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.SpectrumFiles;
 
-/** The line chart leaves room above its tallest line for that line's upright label. */
+/**
+ * The line chart leaves room above its tallest line for that line's upright label, on a linear
+ * and a logarithmic axis; the residual chart shows only the classes that have members and keeps
+ * its scale to the fitted pairs, a wild pair drawn on the edge.
+ */
 class PlotsTest {
 
     private static final Font FONT = new Font(Font.SANS_SERIF, Font.PLAIN, 11);
@@ -25,5 +42,67 @@ class PlotsTest {
         assertTrue(top - 103 >= width / 580.0 * top, "top " + top + " for a " + width + " px label");
         // Without labels the axis keeps its usual 35 % head room.
         assertEquals(135, Plots.axisTop(x, y, 100, List.of(), FONT), 1e-9);
+    }
+
+    @Test
+    void onALogarithmicAxisLabelsFitAndEmptyPixelsSitOnTheFloor() {
+        System.setProperty("java.awt.headless", "true");
+        double[] x = {1, 2, 3, 4};
+        double[] y = {0, 1e4, 3, 0.5};
+        double floor = Plots.logFloor(y, 1e4);
+        assertEquals(0.4, floor, 1e-12, "the smallest positive value, less a fifth");
+        assertEquals(1e4 * 1e-6 * 0.8, Plots.logFloor(new double[] {1e-9, 1e4}, 1e4), 1e-18, "at least 1e-6 of the top");
+        String text = "H I Balmer alpha";
+        double top = Plots.logAxisTop(x, y, 1e4, floor, List.of(new Plots.Label(2, text)), FONT);
+        int width = new java.awt.image.BufferedImage(1, 1, java.awt.image.BufferedImage.TYPE_INT_RGB)
+                .createGraphics().getFontMetrics(FONT).stringWidth(text);
+        double decades = Math.log10(top / floor);
+        // The label starts at 1.5e4 and runs up `width` pixels of a data area at least 580 px high.
+        assertTrue(Math.log10(top) - Math.log10(1.5e4) >= width / 580.0 * decades, "top " + top);
+        assertEquals(1e5, Plots.logAxisTop(x, y, 1e4, floor, List.of(), FONT), 1e-6, "a decade of head room");
+    }
+
+    @Test
+    void theResidualChartShowsOnlyClassesWithMembersAndKeepsItsScale(@TempDir Path dir) throws IOException {
+        // A neon lamp through the polynomial 540 + 0.06 p - 2e-6 p^2 (invented), its brightest
+        // lines saturated at half the peak counts.
+        Path spectrum = dir.resolve("neon.csv");
+        CliTest.Run synth = CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "540,0.06,-2e-6", "--pixels",
+                "2048", "--medium", "air", "--temperature", "400", "--resolving-power", "4000", "--read-noise", "4",
+                "--seed", "3", "--out", spectrum.toString());
+        assertEquals(0, synth.code(), synth.err());
+        double[] counts = SpectrumFiles.read(spectrum).counts();
+        double top = java.util.Arrays.stream(counts).max().orElseThrow();
+        for (int p = 0; p < counts.length; p++) {
+            counts[p] = Math.min(counts[p], 0.5 * top);
+        }
+        DataContext data = DataContext.builtIn();
+        LampSet neon = LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
+        Calibration calibration = Calibrator.defaults().withSaturationLevel(0.5 * top)
+                .calibrate(CalibrationProblem.builder(counts).lamp(neon).build());
+        assertTrue(calibration.saturatedPairs().size() > 0, "some pairs saturated");
+        XYPlot plot = Plots.residualChart("t", calibration).getXYPlot();
+        List<String> keys = new ArrayList<>();
+        for (int k = 0; k < plot.getDataset().getSeriesCount(); k++) {
+            keys.add(plot.getDataset().getSeriesKey(k).toString());
+        }
+        assertEquals("fitted", keys.get(0));
+        assertTrue(keys.contains("saturated (not fitted)") || keys.contains("saturated (not fitted), beyond the scale"),
+                keys.toString());
+        boolean anyRejected = false;
+        for (int i = 0; i < calibration.solution().size(); i++) {
+            anyRejected |= calibration.solution().isRejected(i);
+        }
+        assertEquals(anyRejected, keys.stream().anyMatch(key -> key.startsWith("rejected")), keys.toString());
+        // The scale is the fitted pairs': every fitted point inside it, and points beyond it on the edge.
+        double limit = plot.getRangeAxis().getUpperBound();
+        assertEquals(-limit, plot.getRangeAxis().getLowerBound(), 0);
+        for (int k = 0; k < keys.size(); k++) {
+            for (int i = 0; i < plot.getDataset().getItemCount(k); i++) {
+                double y = plot.getDataset().getYValue(k, i);
+                assertTrue(keys.get(k).endsWith("beyond the scale") ? Math.abs(y) == limit : Math.abs(y) <= limit,
+                        keys.get(k) + ": " + y + " against " + limit);
+            }
+        }
     }
 }
