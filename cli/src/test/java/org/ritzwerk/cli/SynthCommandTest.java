@@ -174,6 +174,19 @@ class SynthCommandTest {
         assertTrue(bluest > 50 && bluest < 55, "bluest pixel " + bluest);
         byte[] head = Arrays.copyOf(Files.readAllBytes(png), 8);
         assertEquals("\u0089PNG", new String(head, 0, 4, StandardCharsets.ISO_8859_1));
+        // A logarithmic counts axis; the option means nothing without a plot.
+        Path log = dir.resolve("log.png");
+        CliTest.Run logRun = CliTest.run("synth", "--species", "H I", "--from", "440 nm", "--to", "500 nm",
+                "--temperature", "25000", "--pixels", "300", "--plot", log.toString(), "--plot-scale", "log",
+                "--out", dir.resolve("log.csv").toString());
+        assertEquals(0, logRun.code(), logRun.err());
+        assertEquals("\u0089PNG", new String(Files.readAllBytes(log), 0, 4, StandardCharsets.ISO_8859_1));
+        CliTest.Run noPlot = CliTest.run("synth", "--species", "H I", "--from", "440 nm", "--to", "500 nm",
+                "--temperature", "25000", "--plot-scale", "log");
+        assertEquals(2, noPlot.code(), noPlot.err());
+        assertEquals("ritzwerk synth: --plot-scale has no effect without --plot", noPlot.err().strip());
+        assertTrue(CliTest.run("synth", "--species", "H I", "--from", "440 nm", "--to", "500 nm", "--temperature",
+                "25000", "--plot", log.toString(), "--plot-scale", "ln").err().contains("--plot-scale must be linear or log"));
     }
 
     @Test
