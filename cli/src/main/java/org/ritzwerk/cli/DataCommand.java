@@ -13,9 +13,9 @@ import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.hydrogenic.Notation;
 import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.IsotopeFiles;
 import org.ritzwerk.refdata.LevelListFiles;
 import org.ritzwerk.refdata.LineListFiles;
-import org.ritzwerk.refdata.NuclearData;
 import org.ritzwerk.refdata.QuantumDefectFiles;
 import org.ritzwerk.refdata.UserFiles;
 import picocli.CommandLine;
@@ -127,7 +127,7 @@ final class DataCommand implements Callable<Integer> {
                 return 0;
             }
             if (set instanceof IsotopeTable && format == Table.Format.csv) {
-                out.print(NuclearData.writeCsv((IsotopeTable) set));
+                out.print(IsotopeFiles.writeCsv((IsotopeTable) set));
                 out.flush();
                 return 0;
             }

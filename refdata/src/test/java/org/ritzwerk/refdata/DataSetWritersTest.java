@@ -42,8 +42,8 @@ class DataSetWritersTest {
                         OptionalDouble.of(1.68), OptionalDouble.empty(), new Isotope.SourceKeys("k1", "spin=k3", "k4")),
                 Isotope.tabulated(37, 87, 86.909, 5e-9, 3, OptionalDouble.of(2.75), OptionalDouble.empty(),
                         OptionalDouble.empty(), OptionalDouble.empty(), new Isotope.SourceKeys("k1", "", ""))));
-        String text = NuclearData.writeCsv(table);
-        assertEquals(table, NuclearData.read(bytes(text), "mine.csv").table());
+        String text = IsotopeFiles.writeCsv(table);
+        assertEquals(table, IsotopeFiles.read(bytes(text), "mine.csv"));
         assertEquals("mass k1; ; radius none", table.isotopes().get(2).source());
     }
 
@@ -51,7 +51,7 @@ class DataSetWritersTest {
     void aFreeTextIsotopeSourceIsRefusedNotWrittenWrong() {
         IsotopeTable table = new IsotopeTable(ISOTOPES, List.of(new Isotope(1, 1, 1.0078, 0, 1,
                 OptionalDouble.of(2.79), OptionalDouble.empty(), "a handbook")));
-        ReferenceDataException e = assertThrows(ReferenceDataException.class, () -> NuclearData.writeCsv(table));
+        ReferenceDataException e = assertThrows(ReferenceDataException.class, () -> IsotopeFiles.writeCsv(table));
         assertEquals(ReferenceDataException.NOT_WRITABLE, e.code());
         assertTrue(e.getMessage().contains("isotope H-1 of 'my-isotopes' has a free-text source ('a handbook')"),
                 e.getMessage());
