@@ -9,7 +9,11 @@
  * cm^-1 above the ground level), core polarizabilities
  * ({@link org.ritzwerk.data.CorePolarizability}, atomic units a0^3 and a0^5) and model-potential
  * parameters ({@link org.ritzwerk.data.ModelPotential}, atomic units: a0, a0^-1, a0^-2, a0^3);
- * the engine computes with them. Everything here is immutable and thread-safe, except that a
+ * the engine computes with them. A saved wavelength calibration is data too:
+ * {@link org.ritzwerk.data.CalibrationRecord} (pixels, description, fit figures and pairs) holding
+ * a {@link org.ritzwerk.data.DispersionPolynomial} (coefficients in nm of a scaled pixel variable,
+ * covariance in nm^2, valid pixel range, medium), readable without the engine, which evaluates
+ * it. Everything here is immutable and thread-safe, except that a
  * provider's own thread-safety is the provider's promise.
  */
 package org.ritzwerk.data;

@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.CalibrationRecord;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.StrengthClass;
@@ -361,11 +362,11 @@ final class CalibrateCommand implements Callable<Integer> {
         w.flush();
     }
 
-    private static List<CalibrationFiles.SaturatedLine> saturatedLines(Calibration calibration) {
+    private static List<CalibrationRecord.SaturatedLine> saturatedLines(Calibration calibration) {
         LampMatch left = calibration.saturatedPairs();
-        List<CalibrationFiles.SaturatedLine> lines = new ArrayList<>();
+        List<CalibrationRecord.SaturatedLine> lines = new ArrayList<>();
         for (int i = 0; i < left.size(); i++) {
-            lines.add(new CalibrationFiles.SaturatedLine(left.pixel(i), left.wavelength(i),
+            lines.add(new CalibrationRecord.SaturatedLine(left.pixel(i), left.wavelength(i),
                     calibration.saturatedPairLabel(i)));
         }
         return lines;

@@ -13,8 +13,10 @@ import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.hydrogenic.Notation;
 import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.IsotopeFiles;
 import org.ritzwerk.refdata.LevelListFiles;
 import org.ritzwerk.refdata.LineListFiles;
+import org.ritzwerk.refdata.QuantumDefectFiles;
 import org.ritzwerk.refdata.UserFiles;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -56,8 +58,8 @@ final class DataCommand implements Callable<Integer> {
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text", scope = CommandLine.ScopeType.INHERIT,
             description = {"text (aligned table), csv or json (one object per line);",
-                "'show' writes a line list or level table in csv or json in its",
-                "file format. Default: ${DEFAULT-VALUE}."})
+                "'show' writes any set in csv, and a line list or level table in",
+                "json, in its file format. Default: ${DEFAULT-VALUE}."})
     Table.Format format;
 
     @Override
@@ -87,8 +89,8 @@ final class DataCommand implements Callable<Integer> {
 
     /** {@code ritzwerk data show ID}. */
     @Command(name = "show", mixinStandardHelpOptions = true, header = "Print one data set.",
-            description = {"Print one data set. For a line list, --format csv or json writes the set in the",
-                "ritzwerk-lines file format, ready to edit and use with --file."})
+            description = {"Print one data set. --format csv writes any set in its file format, ready to edit",
+                "and use with --file; json does so for a line list or level table."})
     static final class Show implements Callable<Integer> {
 
         @Spec
@@ -116,6 +118,16 @@ final class DataCommand implements Callable<Integer> {
             if (set instanceof LevelList && format != Table.Format.text) {
                 LevelList levels = (LevelList) set;
                 out.print(format == Table.Format.csv ? LevelListFiles.writeCsv(levels) : LevelListFiles.writeJson(levels));
+                out.flush();
+                return 0;
+            }
+            if (set instanceof QuantumDefects && format == Table.Format.csv) {
+                out.print(QuantumDefectFiles.writeCsv((QuantumDefects) set));
+                out.flush();
+                return 0;
+            }
+            if (set instanceof IsotopeTable && format == Table.Format.csv) {
+                out.print(IsotopeFiles.writeCsv((IsotopeTable) set));
                 out.flush();
                 return 0;
             }

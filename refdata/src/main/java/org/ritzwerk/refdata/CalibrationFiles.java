@@ -4,7 +4,12 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+import org.ritzwerk.data.CalibrationRecord;
+import org.ritzwerk.data.DispersionPolynomial;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
@@ -35,9 +40,16 @@ import tools.jackson.databind.node.ObjectNode;
  *                                         (their peaks reached the saturation level); only when any
  * }
  * </pre>
- * Pixel p (0-based) has its centre at p. Reading uses only the solution's members (medium,
- * pixels, valid_pixels, centre_pixel, half_range, coefficients_nm, covariance_nm2); the rest is
- * the record of how it was made. Stateless and thread-safe.
+ * Pixel p (0-based) has its centre at p. The file holds a {@link CalibrationRecord} (api): the
+ * solution's members (medium, pixels, valid_pixels, centre_pixel, half_range, coefficients_nm,
+ * covariance_nm2) are required; the record of how it was made (description, rms_nm, rms_pixels,
+ * reduced_chi_square, lines, saturated_lines) may be absent or null (a hand-written file of
+ * stored coefficients), and is checked when present. The members that follow from the others
+ * (power_coefficients_nm, degree, lines_used, lines_rejected) are written for the reader's
+ * convenience and not read back. A record written by {@link #toJson(CalibrationRecord)} reads
+ * back equal ({@link #readRecord}). Reading also checks the polynomial across the whole detector
+ * with the engine's {@link DispersionSolution#checkAcross(int, double)}. Stateless and
+ * thread-safe.
  */
 public final class CalibrationFiles {
 
@@ -50,13 +62,48 @@ public final class CalibrationFiles {
     }
 
     /**
-     * A calibration read back.
-     *
-     * @param solution    the dispersion solution (no fitted pairs)
-     * @param pixels      the detector's pixel count it was made for
-     * @param description the free-text description
+     * A calibration read back: the {@link CalibrationRecord} as the file holds it, and the
+     * engine's {@link DispersionSolution} that evaluates its polynomial.
      */
-    public record Calibration(DispersionSolution solution, int pixels, String description) {
+    public static final class Calibration {
+
+        private final CalibrationRecord record;
+        private final DispersionSolution solution;
+
+        /** @param record a calibration record; its polynomial becomes the {@link #solution()} */
+        public Calibration(CalibrationRecord record) {
+            this.record = Objects.requireNonNull(record, "record");
+            this.solution = DispersionSolution.of(record.polynomial());
+        }
+
+        /** @return the calibration as the file holds it */
+        public CalibrationRecord record() {
+            return record;
+        }
+
+        /** @return the dispersion solution of the record's polynomial (no fitted pairs) */
+        public DispersionSolution solution() {
+            return solution;
+        }
+
+        /** @return the detector's pixel count it was made for */
+        public int pixels() {
+            return record.pixels();
+        }
+
+        /** @return the free-text description */
+        public String description() {
+            return record.description();
+        }
+    }
+
+    /**
+     * @param file   where to write
+     * @param record the calibration
+     * @throws IOException when the file cannot be written
+     */
+    public static void write(Path file, CalibrationRecord record) throws IOException {
+        OutputFiles.writeString(file, toJson(record));
     }
 
     /**
@@ -69,25 +116,14 @@ public final class CalibrationFiles {
      */
     public static void write(Path file, DispersionSolution solution, int pixels, String description,
             List<String> lineLabels) throws IOException {
-        OutputFiles.writeString(file, toJson(solution, pixels, description, lineLabels, List.of()));
-    }
-
-    /**
-     * A pair whose peak reached the detector's saturation level: paired with its lamp line but
-     * left out of the fit.
-     *
-     * @param pixel        the peak's centroid, pixels
-     * @param wavelengthNm the line's wavelength, nm, in the solution's medium
-     * @param line         the line's label
-     */
-    public record SaturatedLine(double pixel, double wavelengthNm, String line) {
+        write(file, solution.toRecord(pixels, description, lineLabels, List.of()));
     }
 
     /**
      * @return the file's text (see {@link #write}), with no saturated lines
      */
     public static String toJson(DispersionSolution solution, int pixels, String description, List<String> lineLabels) {
-        return toJson(solution, pixels, description, lineLabels, List.of());
+        return toJson(solution.toRecord(pixels, description, lineLabels, List.of()));
     }
 
     /**
@@ -96,27 +132,34 @@ public final class CalibrationFiles {
      * @return the file's text (see {@link #write})
      */
     public static String toJson(DispersionSolution solution, int pixels, String description, List<String> lineLabels,
-            List<SaturatedLine> saturated) {
-        if (lineLabels.size() != solution.size()) {
-            throw new IllegalArgumentException(solution.size() + " fitted pairs but " + lineLabels.size() + " labels");
-        }
+            List<CalibrationRecord.SaturatedLine> saturated) {
+        return toJson(solution.toRecord(pixels, description, lineLabels, saturated));
+    }
+
+    /**
+     * @param record the calibration
+     * @return the file's text (see {@link #write}); {@link #readRecord} gives the record back
+     *         equal
+     */
+    public static String toJson(CalibrationRecord record) {
+        DispersionPolynomial polynomial = record.polynomial();
         JsonMapper mapper = JsonMapper.builder().build();
         ObjectNode root = mapper.createObjectNode();
         root.put("format", FORMAT);
         root.put("version", VERSION);
-        root.put("description", description);
-        root.put("medium", solution.medium().spec());
-        root.put("pixels", pixels);
+        root.put("description", record.description());
+        root.put("medium", polynomial.medium().spec());
+        root.put("pixels", record.pixels());
         ArrayNode valid = root.putArray("valid_pixels");
-        valid.add(solution.lowestPixel());
-        valid.add(solution.highestPixel());
-        root.put("centre_pixel", solution.centrePixel());
-        root.put("half_range", solution.halfRange());
+        valid.add(polynomial.lowestPixel());
+        valid.add(polynomial.highestPixel());
+        root.put("centre_pixel", polynomial.centrePixel());
+        root.put("half_range", polynomial.halfRange());
         ArrayNode coefficients = root.putArray("coefficients_nm");
-        for (double c : solution.scaledCoefficients()) {
+        for (double c : polynomial.coefficients()) {
             coefficients.add(c);
         }
-        double[][] covariance = solution.covariance();
+        double[][] covariance = polynomial.covariance();
         if (covariance == null) {
             root.putNull("covariance_nm2");
         } else {
@@ -129,29 +172,29 @@ public final class CalibrationFiles {
             }
         }
         ArrayNode power = root.putArray("power_coefficients_nm");
-        for (double c : solution.powerCoefficients()) {
+        for (double c : polynomial.powerCoefficients()) {
             power.add(c);
         }
-        root.put("degree", solution.degree());
-        putNumber(root, "rms_nm", solution.rmsNm());
-        putNumber(root, "rms_pixels", solution.rmsPixels());
-        putNumber(root, "reduced_chi_square", solution.reducedChiSquare());
-        root.put("lines_used", solution.usedCount());
-        root.put("lines_rejected", solution.rejectedCount());
+        root.put("degree", record.degree());
+        putNumber(root, "rms_nm", record.rmsNm());
+        putNumber(root, "rms_pixels", record.rmsPixels());
+        putNumber(root, "reduced_chi_square", record.reducedChiSquare());
+        root.put("lines_used", record.linesUsed());
+        root.put("lines_rejected", record.linesRejected());
         ArrayNode lines = root.putArray("lines");
-        for (int i = 0; i < solution.size(); i++) {
+        for (CalibrationRecord.FittedLine pair : record.lines()) {
             ObjectNode line = lines.addObject();
-            line.put("pixel", solution.pixel(i));
-            line.put("wavelength_nm", solution.wavelength(i));
-            putNumber(line, "sigma_nm", solution.sigmaNm(i));
-            line.put("residual_nm", solution.residualNm(i));
-            line.put("residual_pixels", solution.residualPixels(i));
-            line.put("used", !solution.isRejected(i));
-            line.put("line", lineLabels.get(i));
+            line.put("pixel", pair.pixel());
+            line.put("wavelength_nm", pair.wavelengthNm());
+            putNumber(line, "sigma_nm", pair.sigmaNm());
+            line.put("residual_nm", pair.residualNm());
+            line.put("residual_pixels", pair.residualPixels());
+            line.put("used", pair.used());
+            line.put("line", pair.line());
         }
-        if (!saturated.isEmpty()) {
+        if (!record.saturatedLines().isEmpty()) {
             ArrayNode left = root.putArray("saturated_lines");
-            for (SaturatedLine pair : saturated) {
+            for (CalibrationRecord.SaturatedLine pair : record.saturatedLines()) {
                 ObjectNode line = left.addObject();
                 line.put("pixel", pair.pixel());
                 line.put("wavelength_nm", pair.wavelengthNm());
@@ -163,10 +206,19 @@ public final class CalibrationFiles {
 
     /**
      * @param file a calibration file
-     * @return the calibration
+     * @return the calibration, with the engine's solution of its polynomial
      * @throws DataFileException naming the member that is missing or wrong, or when unreadable
      */
     public static Calibration read(Path file) {
+        return new Calibration(readRecord(file));
+    }
+
+    /**
+     * @param file a calibration file
+     * @return the calibration as the file holds it (a file {@link #write} wrote reads back equal)
+     * @throws DataFileException naming the member that is missing or wrong, or when unreadable
+     */
+    public static CalibrationRecord readRecord(Path file) {
         String source = file.toString();
         String text;
         try {
@@ -174,10 +226,14 @@ public final class CalibrationFiles {
         } catch (IOException e) {
             throw DataFileException.unreadable(source, e);
         }
-        return parse(source, text);
+        return parseRecord(source, text);
     }
 
     static Calibration parse(String source, String text) {
+        return new Calibration(parseRecord(source, text));
+    }
+
+    static CalibrationRecord parseRecord(String source, String text) {
         text = TabularFiles.withoutByteOrderMark(text);
         JsonNode root;
         try {
@@ -228,14 +284,45 @@ public final class CalibrationFiles {
             }
         }
         String description = root.path("description").asString("");
-        DispersionSolution solution;
+        DispersionPolynomial polynomial;
         try {
-            solution = DispersionSolution.of(centre, halfRange, coefficients, covariance, valid[0], valid[1], medium);
+            polynomial = new DispersionPolynomial(medium, centre, halfRange, coefficients, covariance, valid[0],
+                    valid[1]);
         } catch (IllegalArgumentException e) {
             throw invalid(source, e.getMessage());
         }
-        checkAcrossTheDetector(source, solution, pixels, covariance != null);
-        return new Calibration(solution, pixels, description);
+        checkAcrossTheDetector(source, DispersionSolution.of(polynomial), pixels);
+        double rmsNm = optionalNumber(source, root, "rms_nm", "");
+        double rmsPixels = optionalNumber(source, root, "rms_pixels", "");
+        double reducedChiSquare = optionalNumber(source, root, "reduced_chi_square", "");
+        List<CalibrationRecord.FittedLine> lines = new ArrayList<>();
+        for (JsonNode line : objects(source, root, "lines")) {
+            String where = "\"lines\"[" + lines.size() + "]";
+            try {
+                lines.add(new CalibrationRecord.FittedLine(number(source, line, "pixel", where),
+                        number(source, line, "wavelength_nm", where), optionalNumber(source, line, "sigma_nm", where),
+                        number(source, line, "residual_nm", where), number(source, line, "residual_pixels", where),
+                        bool(source, line, "used", where), text(source, line, "line", where)));
+            } catch (IllegalArgumentException e) {
+                throw invalid(source, where + ": " + e.getMessage());
+            }
+        }
+        List<CalibrationRecord.SaturatedLine> saturated = new ArrayList<>();
+        for (JsonNode line : objects(source, root, "saturated_lines")) {
+            String where = "\"saturated_lines\"[" + saturated.size() + "]";
+            try {
+                saturated.add(new CalibrationRecord.SaturatedLine(number(source, line, "pixel", where),
+                        number(source, line, "wavelength_nm", where), text(source, line, "line", where)));
+            } catch (IllegalArgumentException e) {
+                throw invalid(source, where + ": " + e.getMessage());
+            }
+        }
+        try {
+            return new CalibrationRecord(description, pixels, polynomial, rmsNm, rmsPixels, reducedChiSquare, lines,
+                    saturated);
+        } catch (IllegalArgumentException e) {
+            throw invalid(source, e.getMessage());
+        }
     }
 
     /** Largest wavelength a solution may give, nm: one metre, far beyond any pixel detector's range. */
@@ -244,40 +331,32 @@ public final class CalibrationFiles {
     /**
      * A solution read from a file must give every pixel of the detector a finite, positive
      * wavelength below {@link #MAX_WAVELENGTH_NM} with a finite uncertainty (when the file gives a
-     * covariance; without one there is no uncertainty), rising or falling
-     * throughout (a dispersion solution is monotonic); checked at every pixel up to a million
-     * pixels, and at a million evenly spaced ones beyond.
+     * covariance; without one there is no uncertainty), rising or falling throughout (a dispersion
+     * solution is monotonic): the engine's {@link DispersionSolution#checkAcross(int, double)},
+     * its finding put in the file's terms.
      */
-    private static void checkAcrossTheDetector(String source, DispersionSolution solution, int pixels,
-            boolean withCovariance) {
-        int samples = Math.min(pixels, 1_000_000);
-        double step = (pixels - 1) / (double) (samples - 1);
-        double previous = Double.NaN;
-        int direction = 0;
-        for (int k = 0; k < samples; k++) {
-            double p = k == samples - 1 ? pixels - 1 : k * step;
-            double nm = solution.wavelengthAt(p);
-            if (!(nm > 0 && nm < MAX_WAVELENGTH_NM)) {
+    private static void checkAcrossTheDetector(String source, DispersionSolution solution, int pixels) {
+        Optional<DispersionSolution.DetectorDefect> found = solution.checkAcross(pixels, MAX_WAVELENGTH_NM);
+        if (found.isEmpty()) {
+            return;
+        }
+        DispersionSolution.DetectorDefect defect = found.get();
+        double p = defect.pixel();
+        double nm = defect.wavelengthNm();
+        switch (defect.kind()) {
+            case WAVELENGTH_OUT_OF_RANGE:
                 throw invalid(source, String.format(java.util.Locale.ROOT, "the solution gives pixel %s %s; every pixel"
                         + " must get a wavelength above 0 and below 1e9 nm (check \"coefficients_nm\", \"centre_pixel\""
                         + " and \"half_range\")", pixel(p), Double.isFinite(nm) ? "the wavelength "
                         + String.format(java.util.Locale.ROOT, "%.6g nm", nm) : "no finite wavelength"));
-            }
-            double sigma = solution.wavelengthSigmaAt(p);
-            if (withCovariance && !(sigma >= 0 && sigma < MAX_WAVELENGTH_NM)) {
+            case UNCERTAINTY_OUT_OF_RANGE:
                 throw invalid(source, "the solution's uncertainty at pixel " + pixel(p) + " is not a finite number of"
                         + " nm below 1e9; check \"covariance_nm2\"");
-            }
-            if (k > 0) {
-                int sign = (int) Math.signum(nm - previous);
-                if (sign == 0 || (direction != 0 && sign != direction)) {
-                    throw invalid(source, "the solution is not monotonic: the wavelength " + (sign == 0 ? "stands still"
-                            : "turns back") + " near pixel " + pixel(p) + "; a dispersion solution must rise or fall"
-                            + " across the whole detector");
-                }
-                direction = sign;
-            }
-            previous = nm;
+            default:
+                throw invalid(source, "the solution is not monotonic: the wavelength "
+                        + (defect.kind() == DispersionSolution.DetectorDefect.Kind.STANDS_STILL ? "stands still"
+                                : "turns back") + " near pixel " + pixel(p) + "; a dispersion solution must rise or fall"
+                        + " across the whole detector");
         }
     }
 
@@ -314,6 +393,67 @@ public final class CalibrationFiles {
             values[i] = array.get(i).asDouble();
         }
         return values;
+    }
+
+    /** A member that may be absent or null (then NaN), else a finite number. */
+    private static double optionalNumber(String source, JsonNode node, String name, String where) {
+        JsonNode v = node.get(name);
+        if (v == null || v.isNull()) {
+            return Double.NaN;
+        }
+        if (!v.isNumber() || !Double.isFinite(v.asDouble())) {
+            throw invalid(source, prefix(where) + "\"" + name + "\" must be a finite number or null, got "
+                    + TabularFiles.shown(v));
+        }
+        return v.asDouble();
+    }
+
+    private static double number(String source, JsonNode node, String name, String where) {
+        JsonNode v = node.get(name);
+        if (v == null || !v.isNumber() || !Double.isFinite(v.asDouble())) {
+            throw invalid(source, prefix(where) + "\"" + name + "\" must be a finite number, got " + TabularFiles.shown(v));
+        }
+        return v.asDouble();
+    }
+
+    private static boolean bool(String source, JsonNode node, String name, String where) {
+        JsonNode v = node.get(name);
+        if (v == null || !v.isBoolean()) {
+            throw invalid(source, prefix(where) + "\"" + name + "\" must be true or false, got " + TabularFiles.shown(v));
+        }
+        return v.asBoolean();
+    }
+
+    private static String text(String source, JsonNode node, String name, String where) {
+        JsonNode v = node.get(name);
+        if (v == null || !v.isString()) {
+            throw invalid(source, prefix(where) + "\"" + name + "\" must be a string, got " + TabularFiles.shown(v));
+        }
+        return v.asString();
+    }
+
+    /** The objects of an array member that may be absent or null (then none). */
+    private static List<JsonNode> objects(String source, JsonNode root, String name) {
+        JsonNode array = root.get(name);
+        if (array == null || array.isNull()) {
+            return List.of();
+        }
+        if (!array.isArray()) {
+            throw invalid(source, "\"" + name + "\" must be an array of objects or null, got " + TabularFiles.shown(array));
+        }
+        List<JsonNode> objects = new ArrayList<>();
+        for (int i = 0; i < array.size(); i++) {
+            if (!array.get(i).isObject()) {
+                throw invalid(source, "\"" + name + "\"[" + i + "] must be an object, got "
+                        + TabularFiles.shown(array.get(i)));
+            }
+            objects.add(array.get(i));
+        }
+        return objects;
+    }
+
+    private static String prefix(String where) {
+        return where.isEmpty() ? "" : where + ": ";
     }
 
     private static DataFileException invalid(String source, String message) {

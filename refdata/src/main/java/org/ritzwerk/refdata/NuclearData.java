@@ -485,10 +485,19 @@ public final class NuclearData {
             if (!(mass > 0)) {
                 throw new FieldProblem("field mass_u must be positive, got " + fields[3], column(3));
             }
-            String source = "mass " + fields[5] + "; " + fields[9] + "; radius "
-                    + (fields[12].isEmpty() ? "none" : fields[12]);
-            return new Isotope(z, a, mass, number(4, "mass_unc_u"), twiceSpin(fields[6]),
-                    optional(7, "moment_nm"), optional(10, "radius_fm"), source);
+            Isotope.SourceKeys keys = new Isotope.SourceKeys(fields[5], fields[9], fields[12]);
+            double massSigma = number(4, "mass_unc_u");
+            int twiceSpin = twiceSpin(fields[6]);
+            OptionalDouble moment = optional(7, "moment_nm");
+            OptionalDouble momentSigma = optional(8, "moment_unc_nm");
+            OptionalDouble radius = optional(10, "radius_fm");
+            OptionalDouble radiusSigma = optional(11, "radius_unc_fm");
+            try {
+                return Isotope.tabulated(z, a, mass, massSigma, twiceSpin, moment, momentSigma, radius, radiusSigma,
+                        keys);
+            } catch (IllegalArgumentException e) {
+                throw new FieldProblem(e.getMessage(), 0);
+            }
         }
 
         /** @return the 1-based character column where field {@code index} starts */

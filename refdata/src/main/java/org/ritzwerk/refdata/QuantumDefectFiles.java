@@ -180,6 +180,86 @@ public final class QuantumDefectFiles {
         return content;
     }
 
+    /**
+     * Writes a quantum-defect set in this format, so that {@link #read(InputStream, String, NuclearData)}
+     * reads it back to an equal set when given nuclear data with the same atomic mass of the
+     * species (R_M is not in the file; it is computed again on reading). What the format requires
+     * but a data set does not keep is written as what it is: the limit's provenance is the set's,
+     * its source and each row's source and check say that the data set does not keep them.
+     *
+     * @param defects the set
+     * @return the file's text
+     * @throws ReferenceDataException ({@link ReferenceDataException#NOT_WRITABLE}) naming what the
+     *         format cannot hold: a species that is not a neutral isotope, a series of more than
+     *         five coefficients or with a trailing zero, a header value with a line break or
+     *         surrounding spaces, info species other than the set's species
+     */
+    public static String writeCsv(QuantumDefects defects) {
+        DataSetInfo info = defects.info();
+        Species species = defects.species();
+        if (species.massNumber() == 0 || species.charge() != 0) {
+            throw notWritable(info, "the species must be a neutral isotope such as Rb-87 I, got " + species);
+        }
+        if (!info.species().equals(List.of(species))) {
+            throw notWritable(info, "the set's info names the species " + info.species() + ", the file can hold only "
+                    + species.notation());
+        }
+        String kind = info.provenance().kind().id();
+        StringBuilder out = new StringBuilder("# " + FORMAT + " 1\n");
+        header(out, info, "id", info.id());
+        header(out, info, "title", info.title());
+        header(out, info, "species", species.notation());
+        header(out, info, "source", info.provenance().detail());
+        header(out, info, "provenance", kind);
+        header(out, info, "version", info.version());
+        header(out, info, "limit-per-cm", Double.toString(defects.limitPerCm()));
+        header(out, info, "limit-provenance", kind);
+        header(out, info, "limit-source", "not kept in the data set; see source");
+        if (defects.corePolarizability().isPresent()) {
+            CorePolarizability core = defects.corePolarizability().get();
+            header(out, info, "core-dipole-polarizability-au", Double.toString(core.dipoleAu()));
+            header(out, info, "core-quadrupole-polarizability-au", Double.toString(core.quadrupoleAu()));
+            if (!core.source().isEmpty()) {
+                header(out, info, "core-source", core.source());
+            }
+        }
+        if (defects.levelsId().isPresent()) {
+            header(out, info, "levels", defects.levelsId().get());
+        }
+        out.append("# Written from the data set ").append(info.id()).append(" by ritzwerk. A data set keeps neither")
+                .append(" the source and check of each series nor the limit's own source\n");
+        out.append("# (the original file has them). R_M is computed on reading from the atomic mass in the")
+                .append(" nuclear data in use\n");
+        out.append(String.join(",", COLUMNS)).append('\n');
+        for (QuantumDefects.Series series : defects.series()) {
+            List<Double> d = series.coefficients();
+            if (d.size() > 5 || (d.size() > 1 && d.get(d.size() - 1) == 0)) {
+                throw notWritable(info, "series l = " + series.l() + ", j = " + series.twoJ() + "/2 has the"
+                        + " coefficients " + d + "; the file holds d0 to d8 with no trailing zero");
+            }
+            out.append(series.l()).append(',').append(series.twoJ()).append("/2");
+            for (int i = 0; i < 5; i++) {
+                out.append(',').append(Double.toString(i < d.size() ? d.get(i) : 0.0));
+            }
+            out.append(',').append(series.validFromN()).append(',').append(kind)
+                    .append(",see the header source,not kept in the data set\n");
+        }
+        return out.toString();
+    }
+
+    private static void header(StringBuilder out, DataSetInfo info, String key, String value) {
+        if (value.isEmpty() || !value.equals(value.strip()) || value.indexOf('\n') >= 0 || value.indexOf('\r') >= 0) {
+            throw notWritable(info, "header '# " + key + ": ...' cannot hold '" + value
+                    + "' (it must be one line, not empty, without surrounding spaces)");
+        }
+        out.append("# ").append(key).append(": ").append(value).append('\n');
+    }
+
+    private static ReferenceDataException notWritable(DataSetInfo info, String reason) {
+        return new ReferenceDataException(ReferenceDataException.NOT_WRITABLE, "quantum-defect set '" + info.id()
+                + "' cannot be written as a " + FORMAT + " file: " + reason);
+    }
+
     private static void row(String line, int number, String source, List<QuantumDefects.Series> series,
             Set<String> seen, List<DataProblem> problems) {
         String[] f = line.split(",", COLUMNS.size());

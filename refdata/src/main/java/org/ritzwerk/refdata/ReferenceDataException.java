@@ -16,6 +16,8 @@ public final class ReferenceDataException extends RitzwerkException {
     public static final String WRONG_KIND = "refdata.wrong-kind";
     /** Code: a built-in data file does not read (a packaging bug). */
     public static final String BAD_BUILT_IN = "refdata.bad-built-in";
+    /** Code: a data set holds something its file format cannot hold, so it is not written. */
+    public static final String NOT_WRITABLE = "refdata.not-writable";
 
     /**
      * @param code    one of the codes above

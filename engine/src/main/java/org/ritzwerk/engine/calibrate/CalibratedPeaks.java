@@ -25,15 +25,17 @@ public final class CalibratedPeaks {
     private final double[] nm;
     private final double[] sigmaNm;
     private final double[] fwhmNm;
+    private final double[] dispersion;
     private final double[] flux;
     private final double[] fluxSigma;
     private final Medium medium;
 
-    private CalibratedPeaks(double[] nm, double[] sigmaNm, double[] fwhmNm, double[] flux, double[] fluxSigma,
-            Medium medium) {
+    private CalibratedPeaks(double[] nm, double[] sigmaNm, double[] fwhmNm, double[] dispersion, double[] flux,
+            double[] fluxSigma, Medium medium) {
         this.nm = nm;
         this.sigmaNm = sigmaNm;
         this.fwhmNm = fwhmNm;
+        this.dispersion = dispersion;
         this.flux = flux;
         this.fluxSigma = fluxSigma;
         this.medium = medium;
@@ -51,6 +53,7 @@ public final class CalibratedPeaks {
         double[] nm = new double[n];
         double[] sigma = new double[n];
         double[] fwhm = new double[n];
+        double[] dispersion = new double[n];
         double[] flux = new double[n];
         double[] fluxSigma = new double[n];
         for (int k = 0; k < n; k++) {
@@ -60,10 +63,11 @@ public final class CalibratedPeaks {
             nm[k] = solution.wavelengthAt(c);
             sigma[k] = Math.hypot(slope * peaks.centreSigma(k), Double.isNaN(fromSolution) ? 0 : fromSolution);
             fwhm[k] = Math.abs(slope) * peaks.fwhm(k);
+            dispersion[k] = slope;
             flux[k] = peaks.flux(k);
             fluxSigma[k] = peaks.fluxSigma(k);
         }
-        return new CalibratedPeaks(nm, sigma, fwhm, flux, fluxSigma, solution.medium());
+        return new CalibratedPeaks(nm, sigma, fwhm, dispersion, flux, fluxSigma, solution.medium());
     }
 
     /** @return the number of peaks */
@@ -84,6 +88,14 @@ public final class CalibratedPeaks {
     /** @return the peaks' FWHMs, nm */
     public double[] fwhmsNm() {
         return fwhmNm.clone();
+    }
+
+    /**
+     * @return the solution's dispersion lambda'(c) at each peak, nm per pixel (negative where the
+     *         wavelength falls with pixel)
+     */
+    public double[] dispersionsNmPerPixel() {
+        return dispersion.clone();
     }
 
     /**

@@ -1,6 +1,11 @@
 package org.ritzwerk.engine.calibrate;
 
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
+import org.ritzwerk.data.CalibrationRecord;
+import org.ritzwerk.data.DispersionPolynomial;
 import org.ritzwerk.medium.Medium;
 
 /**
@@ -20,6 +25,12 @@ import org.ritzwerk.medium.Medium;
  * solution itself at that pixel, not of a single new measurement there. It grows quickly outside
  * the fitted range [{@link #lowestPixel()}, {@link #highestPixel()}], where the polynomial is
  * extrapolated.
+ *
+ * <p><b>Data and evaluation.</b> The polynomial as plain data is the api's
+ * {@link DispersionPolynomial} ({@link #polynomial()}, {@link #of(DispersionPolynomial)}), and a
+ * saved calibration is a {@link CalibrationRecord} ({@link #toRecord}); this class evaluates them
+ * (wavelength and its uncertainty, dispersion, inverse, {@link #checkAcross(int, double) the check
+ * across a detector}) and carries a fit's pairs and statistics.
  *
  * <p>Immutable and thread-safe; array accessors return copies. Apply one solution to any number
  * of spectra taken with the same set-up via {@link #pixelCentreWavelengths(int)},
@@ -84,53 +95,83 @@ public final class DispersionSolution {
     public static DispersionSolution of(double centrePixel, double halfRange, double[] coefficients,
             double[][] covariance, double lowestPixel, double highestPixel, Medium medium) {
         Objects.requireNonNull(medium, "medium");
-        if (!Double.isFinite(centrePixel)) {
-            throw new IllegalArgumentException("centre pixel must be finite, got " + centrePixel);
-        }
-        if (!(halfRange > 0) || Double.isInfinite(halfRange)) {
-            throw new IllegalArgumentException("half range must be finite and positive (pixels), got " + halfRange);
-        }
-        if (coefficients.length < 2) {
-            throw new IllegalArgumentException("a dispersion polynomial needs at least two coefficients, got "
-                    + coefficients.length);
-        }
-        for (int j = 0; j < coefficients.length; j++) {
-            if (!Double.isFinite(coefficients[j])) {
-                throw new IllegalArgumentException("coefficient a" + j + " is not finite: " + coefficients[j]);
-            }
-        }
+        return of(new DispersionPolynomial(medium, centrePixel, halfRange, coefficients, covariance, lowestPixel,
+                highestPixel));
+    }
+
+    /**
+     * A solution from a stored polynomial (for example a calibration file's, read by
+     * {@code org.ritzwerk.refdata.CalibrationFiles}), with no fitted pairs: {@link #size()} is 0
+     * and the fit statistics are NaN.
+     *
+     * @param polynomial the polynomial; its covariance may be unknown (then
+     *                   {@link #wavelengthSigmaAt(double)} is NaN)
+     * @return the solution
+     */
+    public static DispersionSolution of(DispersionPolynomial polynomial) {
+        double[] coefficients = polynomial.coefficients();
         int k = coefficients.length;
-        double[][] c = new double[k][k];
-        if (covariance == null) {
+        double[][] c = polynomial.covariance();
+        if (c == null) {
+            c = new double[k][k];
             for (double[] row : c) {
                 java.util.Arrays.fill(row, Double.NaN);
             }
-        } else {
-            if (covariance.length != k) {
-                throw new IllegalArgumentException("the covariance must be " + k + " x " + k + ", got "
-                        + covariance.length + " rows");
-            }
-            for (int i = 0; i < k; i++) {
-                if (covariance[i].length != k) {
-                    throw new IllegalArgumentException("covariance row " + i + " must have " + k + " entries, got "
-                            + covariance[i].length);
-                }
-                for (int j = 0; j < k; j++) {
-                    if (!Double.isFinite(covariance[i][j]) || covariance[i][j] != covariance[j][i]) {
-                        throw new IllegalArgumentException("covariance entry (" + i + ", " + j
-                                + ") must be finite and symmetric, got " + covariance[i][j]);
-                    }
-                    c[i][j] = covariance[i][j];
+        }
+        return new DispersionSolution(polynomial.centrePixel(), polynomial.halfRange(), coefficients, c, 1,
+                polynomial.medium(), Double.NaN, 0, polynomial.lowestPixel(), polynomial.highestPixel(), new double[0],
+                new double[0], new double[0], new double[0], new boolean[0], new double[0]);
+    }
+
+    /**
+     * @return the solution's polynomial as data: coefficients, covariance (null when this solution
+     *         has none, as for stored coefficients without one), fitted range and medium
+     */
+    public DispersionPolynomial polynomial() {
+        return new DispersionPolynomial(medium, centre, halfRange, coefficients, hasCovariance() ? covariance : null,
+                lowestPixel, highestPixel);
+    }
+
+    private boolean hasCovariance() {
+        for (double[] row : covariance) {
+            for (double v : row) {
+                if (Double.isNaN(v)) {
+                    return false;
                 }
             }
         }
-        if (!(Double.isFinite(lowestPixel) && Double.isFinite(highestPixel) && highestPixel > lowestPixel)) {
-            throw new IllegalArgumentException("the valid range needs finite lowest < highest pixel, got "
-                    + lowestPixel + " to " + highestPixel);
+        return true;
+    }
+
+    /**
+     * The solution as a calibration record, as a calibration file saves it: the polynomial, the
+     * quality figures ({@link #rmsNm()}, {@link #rmsPixels()}, {@link #reducedChiSquare()}, NaN
+     * when not known) and every fitted pair with its label.
+     *
+     * @param pixels      the detector's pixel count, at least 2
+     * @param description free text: what the calibration came from
+     * @param lineLabels  one label per fitted pair ({@link #size()} of them)
+     * @param saturated   pairs left out of the fit because their peaks saturated
+     * @return the record
+     * @throws IllegalArgumentException when the labels do not match the pairs, or a figure is not
+     *         finite where the record needs it to be
+     */
+    public CalibrationRecord toRecord(int pixels, String description, List<String> lineLabels,
+            List<CalibrationRecord.SaturatedLine> saturated) {
+        if (lineLabels.size() != size()) {
+            throw new IllegalArgumentException(size() + " fitted pairs but " + lineLabels.size() + " labels");
         }
-        return new DispersionSolution(centrePixel, halfRange, coefficients.clone(), c, 1, medium, Double.NaN, 0,
-                lowestPixel, highestPixel, new double[0], new double[0], new double[0], new double[0], new boolean[0],
-                new double[0]);
+        List<CalibrationRecord.FittedLine> lines = new ArrayList<>(size());
+        for (int i = 0; i < size(); i++) {
+            lines.add(new CalibrationRecord.FittedLine(pixel[i], wavelength[i], sigma[i], residual[i],
+                    residualPixels(i), !rejected[i], lineLabels.get(i)));
+        }
+        return new CalibrationRecord(description, pixels, polynomial(), finiteOrNaN(rmsNm()),
+                finiteOrNaN(rmsPixels()), finiteOrNaN(reducedChiSquare()), lines, saturated);
+    }
+
+    private static double finiteOrNaN(double value) {
+        return Double.isFinite(value) ? value : Double.NaN;
     }
 
     /** @return the polynomial degree */
@@ -161,19 +202,7 @@ public final class DispersionSolution {
      * @return b_0 .. b_d in nm per pixel^j
      */
     public double[] powerCoefficients() {
-        int k = coefficients.length;
-        double[] b = new double[k];
-        // (p - c)^j / h^j expanded by the binomial theorem.
-        for (int j = 0; j < k; j++) {
-            double scale = coefficients[j] / Math.pow(halfRange, j);
-            double binomial = 1;
-            for (int m = 0; m <= j; m++) {
-                // term: C(j, m) p^m (-c)^(j - m)
-                b[m] += scale * binomial * Math.pow(-centre, j - m);
-                binomial = binomial * (j - m) / (m + 1);
-            }
-        }
-        return b;
+        return DispersionPolynomial.powerCoefficients(coefficients, centre, halfRange);
     }
 
     /** @return the covariance of the scaled coefficients in nm^2, as reported (after {@link #covarianceScale()}), a copy */
@@ -341,6 +370,71 @@ public final class DispersionSolution {
             out[i] = wavelengthAt(i - 0.5);
         }
         return out;
+    }
+
+    /**
+     * What {@link #checkAcross(int, double)} found wrong first.
+     *
+     * @param kind         what is wrong
+     * @param pixel        the pixel where it was found
+     * @param wavelengthNm the solution's wavelength there, nm (may be NaN or infinite)
+     */
+    public record DetectorDefect(Kind kind, double pixel, double wavelengthNm) {
+
+        /** The kinds of defect, in the order they are looked for at each pixel. */
+        public enum Kind {
+            /** the wavelength is not finite, or not above 0 and below the largest allowed */
+            WAVELENGTH_OUT_OF_RANGE,
+            /** the solution has a covariance, but its uncertainty there is not finite or too large */
+            UNCERTAINTY_OUT_OF_RANGE,
+            /** the wavelength does not change from the pixel sampled before */
+            STANDS_STILL,
+            /** the wavelength turns back (the solution is not monotonic) */
+            TURNS_BACK
+        }
+    }
+
+    /**
+     * Checks the solution across a whole detector: every pixel must get a finite wavelength above
+     * 0 and below {@code maxWavelengthNm}, with an uncertainty in [0, maxWavelengthNm) when the
+     * solution has a covariance, and the wavelength must rise or fall throughout (a dispersion
+     * solution is monotonic). Checked at every pixel up to a million pixels, and at a million
+     * evenly spaced ones (first and last included) beyond.
+     *
+     * @param pixels          the detector's pixel count, at least 2
+     * @param maxWavelengthNm the largest wavelength allowed, nm
+     * @return the first defect found, pixel by pixel; empty when there is none
+     */
+    public Optional<DetectorDefect> checkAcross(int pixels, double maxWavelengthNm) {
+        if (pixels < 2) {
+            throw new IllegalArgumentException("a detector needs at least 2 pixels, got " + pixels);
+        }
+        boolean withCovariance = hasCovariance();
+        int samples = Math.min(pixels, 1_000_000);
+        double step = (pixels - 1) / (double) (samples - 1);
+        double previous = Double.NaN;
+        int direction = 0;
+        for (int k = 0; k < samples; k++) {
+            double p = k == samples - 1 ? pixels - 1 : k * step;
+            double nm = wavelengthAt(p);
+            if (!(nm > 0 && nm < maxWavelengthNm)) {
+                return Optional.of(new DetectorDefect(DetectorDefect.Kind.WAVELENGTH_OUT_OF_RANGE, p, nm));
+            }
+            double sigma = wavelengthSigmaAt(p);
+            if (withCovariance && !(sigma >= 0 && sigma < maxWavelengthNm)) {
+                return Optional.of(new DetectorDefect(DetectorDefect.Kind.UNCERTAINTY_OUT_OF_RANGE, p, nm));
+            }
+            if (k > 0) {
+                int sign = (int) Math.signum(nm - previous);
+                if (sign == 0 || (direction != 0 && sign != direction)) {
+                    return Optional.of(new DetectorDefect(sign == 0 ? DetectorDefect.Kind.STANDS_STILL
+                            : DetectorDefect.Kind.TURNS_BACK, p, nm));
+                }
+                direction = sign;
+            }
+            previous = nm;
+        }
+        return Optional.empty();
     }
 
     /** @return the number of (pixel, wavelength) pairs fitted, rejected ones included */

@@ -12,7 +12,8 @@ import org.ritzwerk.quantity.Unit;
 
 /**
  * The last step of an automatic calibration: with a first solution in hand, every detected peak
- * becomes a wavelength (with the uncertainty of its centroid and of the solution), and the line
+ * becomes a wavelength (with the uncertainty of its centroid and of the solution, as
+ * {@link CalibratedPeaks} puts them), and the line
  * identifier ({@link Identifier}) pairs all peaks with all lamp lines at once by an optimal
  * one-to-one assignment, within a tolerance of a few pixels. Peaks it calls ambiguous (two lines
  * not separable) are left out. The result is a new {@link LampMatch} to fit again.
@@ -44,20 +45,13 @@ public final class IdentifierRefinement {
             throw new IllegalArgumentException("tolerance must be a positive number of pixels, got " + tolerancePixels);
         }
         int n = peaks.size();
-        double[] nm = new double[n];
-        double[] nmSigma = new double[n];
-        double[] flux = new double[n];
+        CalibratedPeaks calibrated = CalibratedPeaks.of(peaks, solution);
         double widest = 0;
-        for (int k = 0; k < n; k++) {
-            double c = peaks.centre(k);
-            double slope = solution.dispersionAt(c);
-            nm[k] = solution.wavelengthAt(c);
-            double fromSolution = solution.wavelengthSigmaAt(c);
-            nmSigma[k] = Math.hypot(slope * peaks.centreSigma(k), Double.isNaN(fromSolution) ? 0 : fromSolution);
-            flux[k] = Math.max(0, peaks.flux(k));
+        for (double slope : calibrated.dispersionsNmPerPixel()) {
             widest = Math.max(widest, Math.abs(slope));
         }
-        PeakList peakList = PeakList.of(nm, nmSigma, flux, Unit.NANOMETRE, lines.medium());
+        PeakList peakList = PeakList.of(calibrated.wavelengthsNm(), calibrated.wavelengthSigmasNm(),
+                calibrated.fluxes(0), Unit.NANOMETRE, lines.medium());
         LineCatalog.Builder catalog = LineCatalog.builder();
         for (int j = 0; j < lines.size(); j++) {
             double vacuum = lines.medium().toVacuum(lines.wavelength(j) * 1e-9);

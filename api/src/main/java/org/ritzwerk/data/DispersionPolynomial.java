@@ -1,0 +1,175 @@
+package org.ritzwerk.data;
+
+import java.util.Arrays;
+import java.util.Objects;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * A detector's pixel-to-wavelength polynomial as data: the coefficients in the scaled pixel
+ * variable
+ * <pre>
+ *   x = (p - centrePixel) / halfRange,     lambda(p) = sum_j a_j x^j   (nm)
+ * </pre>
+ * their covariance, the pixel range the polynomial was fitted over and the medium of the
+ * wavelengths. This record only holds and checks the numbers; evaluating them (wavelength with
+ * uncertainty at a pixel, the inverse, the dispersion, the monotonicity check) is the engine's
+ * {@code org.ritzwerk.engine.calibrate.DispersionSolution}.
+ *
+ * <p><b>Units.</b> Pixels are 0-based with pixel i centred at i. Coefficients in nm, covariance
+ * in nm^2, the wavelengths in the {@link #medium()} given.
+ *
+ * <p>Immutable and thread-safe: the arrays are copied in and out; {@code equals} compares them
+ * element by element (exactly, as {@link Arrays#equals(double[], double[])} does).
+ *
+ * @param medium       the medium of the wavelengths
+ * @param centrePixel  the pixel at which x = 0; finite
+ * @param halfRange    pixels per unit of x; finite and positive
+ * @param coefficients a_0 .. a_d in nm; at least two, finite
+ * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, symmetric and finite; or null
+ *                     when unknown
+ * @param lowestPixel  the lowest pixel of the range the polynomial is valid for; finite
+ * @param highestPixel the highest pixel of that range; finite, above the lowest
+ */
+public record DispersionPolynomial(Medium medium, double centrePixel, double halfRange, double[] coefficients,
+        double[][] covariance, double lowestPixel, double highestPixel) {
+
+    /**
+     * Validates and copies.
+     *
+     * @throws IllegalArgumentException naming the first unusable component
+     */
+    public DispersionPolynomial {
+        Objects.requireNonNull(medium, "medium");
+        Objects.requireNonNull(coefficients, "coefficients");
+        if (!Double.isFinite(centrePixel)) {
+            throw new IllegalArgumentException("centre pixel must be finite, got " + centrePixel);
+        }
+        if (!(halfRange > 0) || Double.isInfinite(halfRange)) {
+            throw new IllegalArgumentException("half range must be finite and positive (pixels), got " + halfRange);
+        }
+        if (coefficients.length < 2) {
+            throw new IllegalArgumentException("a dispersion polynomial needs at least two coefficients, got "
+                    + coefficients.length);
+        }
+        for (int j = 0; j < coefficients.length; j++) {
+            if (!Double.isFinite(coefficients[j])) {
+                throw new IllegalArgumentException("coefficient a" + j + " is not finite: " + coefficients[j]);
+            }
+        }
+        coefficients = coefficients.clone();
+        int k = coefficients.length;
+        if (covariance != null) {
+            if (covariance.length != k) {
+                throw new IllegalArgumentException("the covariance must be " + k + " x " + k + ", got "
+                        + covariance.length + " rows");
+            }
+            for (int i = 0; i < k; i++) {
+                if (covariance[i].length != k) {
+                    throw new IllegalArgumentException("covariance row " + i + " must have " + k + " entries, got "
+                            + covariance[i].length);
+                }
+            }
+            for (int i = 0; i < k; i++) {
+                for (int j = 0; j < k; j++) {
+                    if (!Double.isFinite(covariance[i][j]) || covariance[i][j] != covariance[j][i]) {
+                        throw new IllegalArgumentException("covariance entry (" + i + ", " + j
+                                + ") must be finite and symmetric, got " + covariance[i][j]);
+                    }
+                }
+            }
+            covariance = copy(covariance);
+        }
+        if (!(Double.isFinite(lowestPixel) && Double.isFinite(highestPixel) && highestPixel > lowestPixel)) {
+            throw new IllegalArgumentException("the valid range needs finite lowest < highest pixel, got "
+                    + lowestPixel + " to " + highestPixel);
+        }
+    }
+
+    private static double[][] copy(double[][] matrix) {
+        double[][] copy = new double[matrix.length][];
+        for (int i = 0; i < copy.length; i++) {
+            copy[i] = matrix[i].clone();
+        }
+        return copy;
+    }
+
+    /** @return a_0 .. a_d in nm, a copy */
+    @Override
+    public double[] coefficients() {
+        return coefficients.clone();
+    }
+
+    /** @return the covariance in nm^2, a copy; null when unknown */
+    @Override
+    public double[][] covariance() {
+        return covariance == null ? null : copy(covariance);
+    }
+
+    /** @return whether the covariance is known */
+    public boolean hasCovariance() {
+        return covariance != null;
+    }
+
+    /** @return the polynomial degree d */
+    public int degree() {
+        return coefficients.length - 1;
+    }
+
+    /**
+     * The same polynomial in the raw pixel, lambda(p) = sum_j b_j p^j (the binomial expansion of
+     * ((p - c) / h)^j). Badly conditioned for high degrees: prefer the scaled form for anything
+     * that is computed again.
+     *
+     * @return b_0 .. b_d in nm per pixel^j
+     */
+    public double[] powerCoefficients() {
+        return powerCoefficients(coefficients, centrePixel, halfRange);
+    }
+
+    /**
+     * {@link #powerCoefficients()} for coefficients not (yet) in a record.
+     *
+     * @param scaled      a_0 .. a_d of the polynomial in x = (p - centrePixel) / halfRange, nm
+     * @param centrePixel the centre of x, pixels
+     * @param halfRange   the scale of x, pixels
+     * @return b_0 .. b_d in nm per pixel^j
+     */
+    public static double[] powerCoefficients(double[] scaled, double centrePixel, double halfRange) {
+        int k = scaled.length;
+        double[] b = new double[k];
+        // (p - c)^j / h^j expanded by the binomial theorem.
+        for (int j = 0; j < k; j++) {
+            double scale = scaled[j] / Math.pow(halfRange, j);
+            double binomial = 1;
+            for (int m = 0; m <= j; m++) {
+                // term: C(j, m) p^m (-c)^(j - m)
+                b[m] += scale * binomial * Math.pow(-centrePixel, j - m);
+                binomial = binomial * (j - m) / (m + 1);
+            }
+        }
+        return b;
+    }
+
+    @Override
+    public boolean equals(Object other) {
+        return other instanceof DispersionPolynomial that && medium.equals(that.medium)
+                && Double.compare(centrePixel, that.centrePixel) == 0 && Double.compare(halfRange, that.halfRange) == 0
+                && Arrays.equals(coefficients, that.coefficients) && Arrays.deepEquals(covariance, that.covariance)
+                && Double.compare(lowestPixel, that.lowestPixel) == 0
+                && Double.compare(highestPixel, that.highestPixel) == 0;
+    }
+
+    @Override
+    public int hashCode() {
+        return Objects.hash(medium, centrePixel, halfRange, Arrays.hashCode(coefficients),
+                Arrays.deepHashCode(covariance), lowestPixel, highestPixel);
+    }
+
+    @Override
+    public String toString() {
+        return "DispersionPolynomial[medium=" + medium.spec() + ", centrePixel=" + centrePixel + ", halfRange="
+                + halfRange + ", coefficients=" + Arrays.toString(coefficients) + ", covariance="
+                + Arrays.deepToString(covariance) + ", lowestPixel=" + lowestPixel + ", highestPixel=" + highestPixel
+                + "]";
+    }
+}

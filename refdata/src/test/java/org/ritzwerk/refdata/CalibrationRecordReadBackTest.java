@@ -1,0 +1,177 @@
+package org.ritzwerk.refdata;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.quicktheories.QuickTheory.qt;
+import static org.quicktheories.generators.SourceDSL.integers;
+import static org.quicktheories.generators.SourceDSL.longs;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.data.CalibrationRecord;
+import org.ritzwerk.data.DispersionPolynomial;
+import org.ritzwerk.engine.calibrate.DispersionFit;
+import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * A calibration record (api) written by {@link CalibrationFiles} reads back equal, member for
+ * member and bit for bit (property over seeded random records: any monotonic polynomial with or
+ * without covariance, any finite figures, NaN for "not known", labels and descriptions with
+ * commas, quotes and non-ASCII text); writing it again gives the same text.
+ */
+class CalibrationRecordReadBackTest {
+
+    private static final String[] MEDIA = {"vacuum", "air", "air(ciddor1996:T=20C,p=101325Pa,RH=40%,CO2=450ppm)"};
+
+    private static String anyText(SplittableRandom r, int min, int max) {
+        String alphabet = "abcXYZ019 ,\"#:-+/()'\u00e9\u03b1\u2013\u00b5\\{}[]\n\t";
+        StringBuilder text = new StringBuilder();
+        int n = min + r.nextInt(max - min + 1);
+        for (int i = 0; i < n; i++) {
+            text.append(alphabet.charAt(r.nextInt(alphabet.length())));
+        }
+        return text.toString();
+    }
+
+    /** A finite double over many decades, of either sign, now and then a signed zero or an extreme. */
+    private static double anyDouble(SplittableRandom r) {
+        int pick = r.nextInt(20);
+        if (pick == 0) {
+            return r.nextBoolean() ? 0.0 : -0.0;
+        }
+        double magnitude = pick == 1 ? Double.longBitsToDouble(r.nextLong(1L, 0x7fefffffffffffffL))
+                : Math.pow(10, -30 + 60 * r.nextDouble()) * (1 + r.nextDouble());
+        return r.nextBoolean() ? magnitude : -magnitude;
+    }
+
+    private static double anyPositiveOrNaN(SplittableRandom r) {
+        return r.nextInt(4) == 0 ? Double.NaN : Math.abs(anyDouble(r));
+    }
+
+    /** A random record whose polynomial passes the reader's check across the detector. */
+    static CalibrationRecord anyRecord(SplittableRandom r, int pixels) {
+        double centre = (pixels - 1) / 2.0 + (r.nextDouble() - 0.5) * 0.1 * pixels;
+        double halfRange = Math.max(0.5, (pixels - 1) / 2.0 * (0.8 + 0.4 * r.nextDouble()));
+        int degree = 1 + r.nextInt(5);
+        double[] a = new double[degree + 1];
+        // |x| <= 1.5 + ... over the detector; the small higher terms keep the slope's sign.
+        double slope = (r.nextBoolean() ? 1 : -1) * (1e-3 + 0.5 * r.nextDouble()) * halfRange;
+        a[1] = slope;
+        for (int j = 2; j <= degree; j++) {
+            a[j] = (r.nextDouble() - 0.5) * 0.02 * Math.abs(slope) / (j * Math.pow(2, j));
+        }
+        a[0] = 100 + 4 * Math.abs(slope) + 2000 * r.nextDouble();
+        double[][] covariance = null;
+        if (r.nextInt(3) != 0) {
+            covariance = new double[degree + 1][degree + 1];
+            for (int i = 0; i <= degree; i++) {
+                for (int j = i; j <= degree; j++) {
+                    double v = i == j ? Math.pow(10, -14 + 10 * r.nextDouble()) : (r.nextDouble() - 0.5) * 1e-8;
+                    covariance[i][j] = v;
+                    covariance[j][i] = v;
+                }
+            }
+        }
+        double lowest = r.nextDouble() * pixels / 3;
+        double highest = lowest + 1e-6 + r.nextDouble() * pixels;
+        DispersionPolynomial polynomial = new DispersionPolynomial(Medium.parse(MEDIA[r.nextInt(MEDIA.length)]),
+                centre, halfRange, a, covariance, lowest, highest);
+        if (r.nextInt(5) == 0) {
+            return CalibrationRecord.of(anyText(r, 0, 30), pixels, polynomial);
+        }
+        List<CalibrationRecord.FittedLine> lines = new ArrayList<>();
+        int n = r.nextInt(25);
+        for (int i = 0; i < n; i++) {
+            lines.add(new CalibrationRecord.FittedLine(anyDouble(r), anyDouble(r), anyPositiveOrNaN(r), anyDouble(r),
+                    anyDouble(r), r.nextInt(5) != 0, anyText(r, 0, 30)));
+        }
+        List<CalibrationRecord.SaturatedLine> saturated = new ArrayList<>();
+        int m = r.nextInt(3) == 0 ? 1 + r.nextInt(4) : 0;
+        for (int i = 0; i < m; i++) {
+            saturated.add(new CalibrationRecord.SaturatedLine(anyDouble(r), anyDouble(r), anyText(r, 0, 30)));
+        }
+        return new CalibrationRecord(anyText(r, 0, 60), pixels, polynomial, anyPositiveOrNaN(r), anyPositiveOrNaN(r),
+                anyPositiveOrNaN(r), lines, saturated);
+    }
+
+    @Test
+    void aWrittenRecordReadsBackEqual() {
+        qt().withFixedSeed(20261203L).withExamples(200)
+                .forAll(integers().between(2, 5000), longs().all())
+                .checkAssert((pixels, seed) -> {
+                    CalibrationRecord record = anyRecord(new SplittableRandom(seed), pixels);
+                    String text = CalibrationFiles.toJson(record);
+                    CalibrationRecord back = CalibrationFiles.parseRecord("x.json", text);
+                    assertEquals(record, back);
+                    assertEquals(text, CalibrationFiles.toJson(back));
+                });
+    }
+
+    @Test
+    void aFittedSolutionSavedAndReadGivesTheSameRecordAndText(@TempDir Path dir) throws IOException {
+        // Invented pairs on 400 + 0.1 p + 1e-5 p^2 nm, with 0.01-pixel centroids.
+        double[] pixel = {10, 200, 400, 650, 800, 1000};
+        double[] nm = new double[pixel.length];
+        double[] sigma = new double[pixel.length];
+        for (int i = 0; i < pixel.length; i++) {
+            nm[i] = 400 + 0.1 * pixel[i] + 1e-5 * pixel[i] * pixel[i] + (i % 2 == 0 ? 1e-4 : -1e-4);
+            sigma[i] = 0.01;
+        }
+        DispersionSolution fitted = DispersionFit.ofDegree(2).fit(pixel, sigma, nm, null, Medium.air());
+        List<String> labels = List.of("a", "b", "c", "d", "e", "f");
+        CalibrationRecord record = fitted.toRecord(1024, "invented pairs", labels,
+                List.of(new CalibrationRecord.SaturatedLine(512.25, 456.5, "g")));
+        Path file = dir.resolve("calibration.json");
+        CalibrationFiles.write(file, record);
+        CalibrationRecord back = CalibrationFiles.readRecord(file);
+        assertEquals(record, back);
+        assertEquals(fitted.usedCount(), back.linesUsed());
+        assertEquals(fitted.polynomial(), back.polynomial());
+        // The engine's solution of the record gives the fitted solution's wavelengths exactly.
+        DispersionSolution again = DispersionSolution.of(back.polynomial());
+        for (double p = 0; p < 1024; p += 37.5) {
+            assertEquals(fitted.wavelengthAt(p), again.wavelengthAt(p));
+            assertEquals(fitted.wavelengthSigmaAt(p), again.wavelengthSigmaAt(p));
+        }
+        // The solution-based writer is the record writer.
+        assertEquals(CalibrationFiles.toJson(fitted, 1024, "invented pairs", labels),
+                CalibrationFiles.toJson(fitted.toRecord(1024, "invented pairs", labels, List.of())));
+    }
+
+    @Test
+    void storedCoefficientsAloneReadAsARecordWithoutFit() {
+        String text = "{\"format\":\"ritzwerk-calibration\",\"version\":1,\"medium\":\"air\",\"pixels\":100,"
+                + "\"valid_pixels\":[0,99],\"centre_pixel\":49.5,\"half_range\":49.5,\"coefficients_nm\":[500,5]}";
+        CalibrationRecord record = CalibrationFiles.parseRecord("stored.json", text);
+        assertEquals(CalibrationRecord.of("", 100, new DispersionPolynomial(Medium.air(), 49.5, 49.5,
+                new double[] {500, 5}, null, 0, 99)), record);
+        assertEquals(0, record.linesUsed());
+        assertTrue(Double.isNaN(record.rmsNm()));
+    }
+
+    @Test
+    void aBadRecordOfHowItWasMadeIsNamed() {
+        String head = "{\"format\":\"ritzwerk-calibration\",\"version\":1,\"medium\":\"air\",\"pixels\":100,"
+                + "\"valid_pixels\":[0,99],\"centre_pixel\":49.5,\"half_range\":49.5,\"coefficients_nm\":[500,5],";
+        DataFileException used = assertThrows(DataFileException.class, () -> CalibrationFiles.parseRecord("c.json",
+                head + "\"lines\":[{\"pixel\":3,\"wavelength_nm\":480,\"sigma_nm\":null,\"residual_nm\":0,"
+                        + "\"residual_pixels\":0,\"used\":\"yes\",\"line\":\"Ne I\"}]}"));
+        assertTrue(used.getMessage().contains("c.json") && used.getMessage().contains("\"lines\"[0]: \"used\" must be"
+                + " true or false, got \"yes\""), used.getMessage());
+        DataFileException rms = assertThrows(DataFileException.class, () -> CalibrationFiles.parseRecord("c.json",
+                head + "\"rms_nm\":\"small\"}"));
+        assertTrue(rms.getMessage().contains("\"rms_nm\" must be a finite number or null"), rms.getMessage());
+        DataFileException sigma = assertThrows(DataFileException.class, () -> CalibrationFiles.parseRecord("c.json",
+                head + "\"lines\":[{\"pixel\":3,\"wavelength_nm\":480,\"sigma_nm\":-1,\"residual_nm\":0,"
+                        + "\"residual_pixels\":0,\"used\":true,\"line\":\"Ne I\"}]}"));
+        assertTrue(sigma.getMessage().contains("\"lines\"[0]: sigma_nm of line 'Ne I' must be finite and >= 0"),
+                sigma.getMessage());
+    }
+}
