@@ -9,6 +9,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.CalibrationRecord;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.calibrate.Calibration;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
@@ -85,6 +86,12 @@ class CalibrationGuideTest {
                     "pixel " + p);
             assertEquals(second[p], read.counts()[p]);
         }
+        // --- README: the file as plain data ---
+        CalibrationRecord record = CalibrationFiles.readRecord(folder.resolve("calibration.json"));
+        DispersionSolution again = DispersionSolution.of(record.polynomial());   // evaluate it with the engine
+        // --- end ---
+        assertEquals(saved.solution().wavelengthAt(777.0), again.wavelengthAt(777.0));
+        assertEquals(solution.usedCount(), record.linesUsed());
         try (var files = Files.list(folder)) {
             assertEquals(2, files.count(), "no temporary file is left behind");
         }
