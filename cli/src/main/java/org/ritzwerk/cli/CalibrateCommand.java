@@ -35,19 +35,17 @@ import picocli.CommandLine.Spec;
 @Command(name = "calibrate",
         mixinStandardHelpOptions = true,
         header = "Find a spectrometer's pixel -> wavelength solution from a lamp spectrum.",
-        description = {
-            "Find the pixel -> wavelength solution of a spectrometer from a lamp spectrum (counts per",
-            "pixel, a ritzwerk-spectrum file): detect the peaks (baseline, noise, S/N threshold,",
-            "Gaussian least-squares centroids with uncertainties), pair them with the lamp's lines",
-            "without a starting solution, refine the pairs with the line identifier (optimal one-to-one),",
-            "fit a weighted polynomial with outlier clipping, and report",
-            "the lines used and rejected, the RMS and the wavelength uncertainty across the detector.",
-            "--apply puts a saved solution's wavelengths on another spectrum."
-        },
+        description = "Find the pixel -> wavelength solution of a spectrometer from a lamp spectrum (counts per "
+                + "pixel, a ritzwerk-spectrum file): detect the peaks (baseline, noise, S/N threshold, "
+                + "Gaussian least-squares centroids with uncertainties), pair them with the lamp's lines "
+                + "without a starting solution, refine the pairs with the line identifier (optimal "
+                + "one-to-one), fit a weighted polynomial with outlier clipping, and report the lines used "
+                + "and rejected, the RMS and the wavelength uncertainty across the detector. --apply puts a "
+                + "saved solution's wavelengths on another spectrum.",
         footer = {"", "Examples:",
             "  ritzwerk calibrate neon.csv --lamp \"Ne I\" --out calibration.json --plot residuals.png",
-            "  ritzwerk calibrate arc.csv --lamp \"Ne I,Ar I\" --from \"500 nm\" --to \"900 nm\" \\",
-            "      --dispersion-range 0.1,0.3",
+            "  ritzwerk calibrate arc.csv --lamp \"Ne I,Ar I\" --from \"500 nm\" --to \"900 nm\"",
+            "  ritzwerk calibrate arc.csv --lamp \"Ne I,Ar I\" --dispersion-range 0.1,0.3",
             "  ritzwerk calibrate sample.csv --apply calibration.json --out sample-nm.csv",
             "",
             "Lamps: UV and high voltage; see the README's safety section."})
@@ -107,13 +105,14 @@ final class CalibrateCommand implements Callable<Integer> {
     double tolerance;
 
     @Option(names = "--min-strength", paramLabel = "CLASS",
-            description = {"Use only the lamp lines whose set classes them at least this strong: strong, medium",
-                "or weak (all; lines without a class are always used). For lamps whose weak lines do not show."})
+            description = "Use only the lamp lines whose set classes them at least this strong: strong, medium or "
+                    + "weak (all; lines without a class are always used). For lamps whose weak lines do not "
+                    + "show.")
     String minStrength;
 
     @Option(names = "--min-matched", paramLabel = "FRACTION", defaultValue = "0.6",
-            description = {"A solution must pair at least this fraction of the strongest peaks with lamp",
-                "lines; lower it for lamps with many lines missing from the set. Default: ${DEFAULT-VALUE}."})
+            description = "A solution must pair at least this fraction of the strongest peaks with lamp lines; "
+                    + "lower it for lamps with many lines missing from the set. Default: ${DEFAULT-VALUE}.")
     double minMatched;
 
     @Option(names = "--clip", paramLabel = "K", defaultValue = "3.5",
@@ -128,9 +127,9 @@ final class CalibrateCommand implements Callable<Integer> {
     Path plot;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
-            description = {"text (the report), csv (the fitted lines: pixel, pixel_sigma, line,",
-                "wavelength_nm, solution_nm, residual_nm, residual_pixels, used) or json (the",
-                "calibration document, as --out writes it). Default: ${DEFAULT-VALUE}."})
+            description = "text (the report), csv (the fitted lines: pixel, pixel_sigma, line, wavelength_nm, "
+                    + "solution_nm, residual_nm, residual_pixels, used) or json (the calibration document, as "
+                    + "--out writes it). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
     @Option(names = "--apply", paramLabel = "CALIBRATION",

@@ -24,20 +24,17 @@ import tools.jackson.databind.node.ObjectNode;
 @Command(name = "convert",
         mixinStandardHelpOptions = true,
         header = "Convert wavelengths, wavenumbers, frequencies, photon energies and temperatures.",
-        description = {
-            "Convert wavelengths (vacuum or air), wavenumbers, frequencies, photon",
-            "energies and temperatures.",
-            "",
-            "A quantity is a number, an optional uncertainty, a unit and, for a",
-            "wavelength, its medium:",
-            "  656.279 nm air   656.28(2) nm   656.28 +- 0.02 nm vacuum   1.8886 eV",
-            "Units: nm um Angstrom m cm-1 m-1 Hz kHz MHz GHz THz eV meV J K.",
-            "A wavelength without a medium is in vacuum. 'air' is standard air",
-            "(Morton 2000); air(ciddor1996:T=20C,p=101325Pa,RH=40%%,CO2=450ppm) is",
-            "Ciddor 1996 at those conditions. Temperatures convert through kT.",
-            "",
-            "Prints one result per quantity and target: for each quantity, every target."
-        },
+        description = {"Convert wavelengths (vacuum or air), wavenumbers, frequencies, photon energies and "
+                + "temperatures.",
+                "",
+                "A quantity is a number, an optional uncertainty, a unit and, for a wavelength, its "
+                + "medium: 656.279 nm air 656.28(2) nm 656.28 +- 0.02 nm vacuum 1.8886 eV Units: nm um "
+                + "Angstrom m cm-1 m-1 Hz kHz MHz GHz THz eV meV J K. A wavelength without a medium is in "
+                + "vacuum. 'air' is standard air (Morton 2000); "
+                + "air(ciddor1996:T=20C,p=101325Pa,RH=40%%,CO2=450ppm) is Ciddor 1996 at those conditions. "
+                + "Temperatures convert through kT.",
+                "",
+                "Prints one result per quantity and target: for each quantity, every target."},
         footer = {"", "Examples:",
             "  ritzwerk convert \"656.279 nm air\" --to \"nm vacuum\"",
             "  ritzwerk convert \"15233.07 cm-1\" --to THz --to eV",

@@ -30,13 +30,11 @@ import picocli.CommandLine.Spec;
 @Command(name = "data",
         mixinStandardHelpOptions = true,
         header = "List, show and check the reference data sets.",
-        description = {
-            "List the reference data sets with their sources (built-in, from provider jars on the",
-            "class path, and your own files given with --file), in order of precedence: your files,",
-            "then third parties, then built-in. 'data show ID' prints one set; 'data check FILE'",
-            "checks a file (line list, level table, quantum-defect set or isotope table) and reports",
-            "every problem. The other commands take the same files with --data."
-        },
+        description = "List the reference data sets with their sources (built-in, from provider jars on the "
+                + "class path, and your own files given with --file), in order of precedence: your files, "
+                + "then third parties, then built-in. 'data show ID' prints one set; 'data check FILE' "
+                + "checks a file (line list, level table, quantum-defect set or isotope table) and reports "
+                + "every problem. The other commands take the same files with --data.",
         subcommands = {DataCommand.Show.class, DataCommand.Check.class},
         footer = {"", "Examples:",
             "  ritzwerk data",
@@ -52,14 +50,13 @@ final class DataCommand implements Callable<Integer> {
     // Both options are inherited by 'show' and 'check', and picocli keeps one value for the command
     // and its subcommands: 'data --file F show ID' and 'data show ID --file F' are the same command.
     @Option(names = {"--file", "--data"}, paramLabel = "FILE", scope = CommandLine.ScopeType.INHERIT,
-            description = {"Add a file of your own: a line list or level table (CSV or JSON),",
-                "a quantum-defect set or an isotope table. Repeatable."})
+            description = "Add a file of your own: a line list or level table (CSV or JSON), a quantum-defect set "
+                    + "or an isotope table. Repeatable.")
     List<Path> files = new ArrayList<>();
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text", scope = CommandLine.ScopeType.INHERIT,
-            description = {"text (aligned table), csv or json (one object per line);",
-                "'show' writes any set in csv, and a line list or level table in",
-                "json, in its file format. Default: ${DEFAULT-VALUE}."})
+            description = "text (aligned table), csv or json (one object per line); 'show' writes any set in csv, "
+                    + "and a line list or level table in json, in its file format. Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
     @Override
@@ -89,8 +86,8 @@ final class DataCommand implements Callable<Integer> {
 
     /** {@code ritzwerk data show ID}. */
     @Command(name = "show", mixinStandardHelpOptions = true, header = "Print one data set.",
-            description = {"Print one data set. --format csv writes any set in its file format, ready to edit",
-                "and use with --file; json does so for a line list or level table."})
+            description = "Print one data set. --format csv writes any set in its file format, ready to edit and "
+                    + "use with --file; json does so for a line list or level table.")
     static final class Show implements Callable<Integer> {
 
         @Spec
@@ -207,8 +204,9 @@ final class DataCommand implements Callable<Integer> {
     /** {@code ritzwerk data check FILE...}. */
     @Command(name = "check", mixinStandardHelpOptions = true,
             header = "Check files in the ritzwerk-lines or ritzwerk-levels format.",
-            description = {"Check files in the ritzwerk-lines or ritzwerk-levels format (CSV or JSON). One line per",
-                "good file; for a bad file, every problem with file, line, column and reason (exit code 2)."})
+            description = "Check files in the ritzwerk-lines or ritzwerk-levels format (CSV or JSON). One line per "
+                    + "good file; for a bad file, every problem with file, line, column and reason (exit code "
+                    + "2).")
     static final class Check implements Callable<Integer> {
 
         @Spec

@@ -16,13 +16,11 @@ import picocli.CommandLine.Spec;
 @Command(name = "demo",
         mixinStandardHelpOptions = true,
         header = "Run the built-in example scenario and write its report, files and plots.",
-        description = {
-            "Run the built-in example scenario (invented; all data generated with fixed seeds): a lab",
-            "calibrates its spectrometer with a neon lamp, identifies the lines of a H-D-He discharge",
-            "(velocity, isotope shift), estimates its temperature and density, and plans a rubidium",
-            "Rydberg sensor's lasers and microwaves. Prints a report and writes the spectra, the",
-            "calibration and PNG plots into a folder."
-        },
+        description = "Run the built-in example scenario (invented; all data generated with fixed seeds): a lab "
+                + "calibrates its spectrometer with a neon lamp, identifies the lines of a H-D-He discharge "
+                + "(velocity, isotope shift), estimates its temperature and density, and plans a rubidium "
+                + "Rydberg sensor's lasers and microwaves. Prints a report and writes the spectra, the "
+                + "calibration and PNG plots into a folder.",
         footer = {"", "Examples:",
             "  ritzwerk demo",
             "  ritzwerk demo --out-dir /tmp/wrenfield"})
