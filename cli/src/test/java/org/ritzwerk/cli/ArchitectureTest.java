@@ -20,7 +20,9 @@ import org.junit.jupiter.api.Test;
  * {@code src/main} calls {@code NuclearData.builtIn()}, {@code RydbergData.builtIn()},
  * {@code DataRegistry.builtIn()} or {@code DataContext.builtIn()}, or names the built-in data
  * classes at all, and only {@link DataOptions} discovers the providers. No command tells a
- * failure's kind by its message text (it uses the exception's type or code).
+ * failure's kind by its message text (it uses the exception's type or code), and no command
+ * imports a numerical building block (line shapes, angular algebra, radial integrals, fits,
+ * Commons Math): commands call jobs.
  */
 class ArchitectureTest {
 
@@ -63,6 +65,34 @@ class ArchitectureTest {
                 + String.join("\n", findings));
     }
 
+    /**
+     * The numerical building blocks a job is made of. A command that imports one computes by
+     * itself instead of calling a job (a problem, a solver and its result), and the computation
+     * belongs in the engine, where a library user can call it too.
+     */
+    private static final Pattern COMPUTATION = Pattern.compile("^import (static )?(org\\.apache\\.commons\\.math3\\."
+            + "|org\\.ritzwerk\\.engine\\.(profile|angular)\\."
+            + "|org\\.ritzwerk\\.engine\\.hydrogenic\\.(RadialIntegrals|AngularFactors|BetheLogarithms)\\b"
+            + "|org\\.ritzwerk\\.engine\\.synth\\.(LineRenderer|GaussLegendre)\\b"
+            + "|org\\.ritzwerk\\.engine\\.calibrate\\.(PolynomialLeastSquares|CurvedPolynomial|GaussianBlendFit|Baseline"
+            + "|DispersionFit)\\b"
+            + "|org\\.ritzwerk\\.engine\\.rydberg\\.(RadialWavefunction|ModelPotentials)\\b"
+            + "|org\\.ritzwerk\\.engine\\.plasma\\.(BoltzmannPlot|VoigtLineFit|IonisationBalance)\\b)");
+
+    @Test
+    void commandsCallJobsNotTheirBuildingBlocks() throws IOException {
+        List<String> findings = new ArrayList<>();
+        for (Path file : sources()) {
+            List<String> lines = Files.readAllLines(file, StandardCharsets.UTF_8);
+            for (int i = 0; i < lines.size(); i++) {
+                check(findings, file.getFileName().toString(), i + 1, lines.get(i), COMPUTATION,
+                        "imports a numerical building block");
+            }
+        }
+        assertTrue(findings.isEmpty(), "call the engine's job (problem, solver, result) instead:\n"
+                + String.join("\n", findings));
+    }
+
     @Test
     void theCheckFindsWhatItLooksFor() {
         List<String> findings = new ArrayList<>();
@@ -73,7 +103,12 @@ class ArchitectureTest {
         check(findings, "X.java", 5, "context.alkaliAtom(species); // builtInSets", BUILT_IN_CALL, "none");
         check(findings, "X.java", 6, "if (e.getMessage().contains(\"no peak\")) {", MESSAGE_TEST, "m");
         check(findings, "X.java", 7, "throw new OptionException(\"--x: \" + e.getMessage(), e);", MESSAGE_TEST, "none");
-        assertTrue(findings.size() == 5, findings.toString());
+        check(findings, "X.java", 8, "import org.ritzwerk.engine.profile.Faddeeva;", COMPUTATION, "p");
+        check(findings, "X.java", 9, "import org.apache.commons.math3.special.Gamma;", COMPUTATION, "p");
+        check(findings, "X.java", 10, "import org.ritzwerk.engine.calibrate.DispersionFit;", COMPUTATION, "p");
+        check(findings, "X.java", 11, "import org.ritzwerk.engine.calibrate.Calibrator;", COMPUTATION, "none");
+        check(findings, "X.java", 12, "import org.ritzwerk.engine.calibrate.DispersionSolution;", COMPUTATION, "none");
+        assertTrue(findings.size() == 8, findings.toString());
     }
 
     private static void check(List<String> findings, String file, int line, String text, Pattern pattern,
