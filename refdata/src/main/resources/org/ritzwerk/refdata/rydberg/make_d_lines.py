@@ -31,6 +31,9 @@ from as the citation, and each is checked by a relation that does not use it:
   check A (hyperfine anomaly): the ratio of an isotope pair's A constants against the ratio of their
       nuclear g factors g_I = mu / (I mu_N) from nuclear/isotopes.csv (N. J. Stone, INDC(NDS)-0794,
       2019): they differ only by the hyperfine anomaly, below 1 % for these atoms;
+  check N (natural element): the abundance-weighted mean of the isotopes' centroids against the NIST ASD
+      level of the natural element (K: abundances 93.2581 %, 0.0117 %, 6.7302 % as in T. G. Tiecke,
+      Properties of Potassium, v1.02, Table 1, read; Rb: 72.17 % and 27.83 %, IUPAC, from memory);
   check H (splitting): the hyperfine splitting the constants give, against a published splitting
       read in an abstract or known exactly (Cs-133 ground level: 9 192 631 770 Hz, the SI second).
 """
@@ -157,6 +160,27 @@ HYPERFINE = [
 ]
 
 
+# Where the from-memory digits were recalled from: the alkali data compilations that tabulate these
+# measurements (standard references; their titles and revisions were found, their tables not read).
+RECALLED_FROM = {
+    "Na-23": "D. A. Steck, Sodium D Line Data (revision 2.0.1, 2008)",
+    "K-39": "T. G. Tiecke, Properties of Potassium (v1.02, 2011)",
+    "K-40": "T. G. Tiecke, Properties of Potassium (v1.02, 2011)",
+    "K-41": "T. G. Tiecke, Properties of Potassium (v1.02, 2011)",
+    "Rb-85": "D. A. Steck, Rubidium 85 D Line Data (revision 2.1.6, 2013)",
+    "Rb-87": "D. A. Steck, Rubidium 87 D Line Data (revision 2.1.5, 2015)",
+    "Cs-133": "D. A. Steck, Cesium D Line Data",
+}
+
+
+def recalled(species, provenance, source):
+    """The source text of a row; for a from-memory row, also the compilation its digits were recalled as in."""
+    if provenance != "from-memory" or species not in RECALLED_FROM or source.startswith("NIST"):
+        return source
+    return source + " (digits recalled as tabulated in " + RECALLED_FROM[species] + "; the attribution to this " \
+                    "measurement is recalled too)"
+
+
 def to_mhz(value, unit):
     v = Decimal(value)
     if unit == "MHz":
@@ -237,6 +261,17 @@ def main():
         for s in (heavy, light):
             for line in ("D1", "D2"):
                 checked[(s, line)].append(text)
+    # check N: natural-element centroid against the ASD level
+    for symbol, shares in [("K", {"K-39": Decimal("0.932581"), "K-40": Decimal("0.000117"), "K-41": Decimal("0.067302")}),
+                           ("Rb", {"Rb-85": Decimal("0.7217"), "Rb-87": Decimal("0.2783")})]:
+        for k, line in enumerate(("D1", "D2")):
+            mean = sum(w * d_line(sp, line) for sp, w in shares.items()) / sum(shares.values())
+            asd = Decimal(ASD_P[symbol][k]) * C_MHZ_PER_CM
+            text = "check N: abundance-weighted %s %s %.3f MHz against the ASD natural-element level %.3f MHz: %+.3f MHz" % (
+                symbol, line, mean, asd, mean - asd)
+            report.append(text)
+            for sp in shares:
+                checked[(sp, line)].append(text)
     # check S: second measurements
     udem = Decimal("335116048807") / 1000
     text = "check S: %s, read in the abstract: 335 116 048 807(41) kHz, %+.3f MHz from this value" % (
@@ -300,7 +335,7 @@ def main():
            "(d-line-checks.txt; written by make_d_lines.py)",
            "species,line,frequency,uncertainty,unit,provenance,source,checked"]
     for s, l, v, u, unit, prov, src in D_LINES:
-        out.append(",".join([s + " I", l, v, u, unit, prov, src.replace(",", ";"),
+        out.append(",".join([s + " I", l, v, u, unit, prov, recalled(s, prov, src).replace(",", ";"),
                              "; ".join(checked[(s, l)]).replace(",", ";")]))
     with open("d-lines.csv", "w") as f:
         f.write("\n".join(out) + "\n")
@@ -318,7 +353,7 @@ def main():
           "checked gives the splittings and the checks (d-line-checks.txt; written by make_d_lines.py)",
           "species,level,a,a-uncertainty,b,b-uncertainty,provenance,source,checked"]
     for s, lv, a, da, b, db, prov, src in HYPERFINE:
-        hf.append(",".join([s + " I", lv, a, da, b, db, prov, src.replace(",", ";"),
+        hf.append(",".join([s + " I", lv, a, da, b, db, prov, recalled(s, prov, src).replace(",", ";"),
                             "; ".join(hf_checked[(s, lv)]).replace(",", ";")]))
     with open("hyperfine-constants.csv", "w") as f:
         f.write("\n".join(hf) + "\n")
