@@ -11,6 +11,7 @@ module org.ritzwerk.engine {
     exports org.ritzwerk.engine.calibrate;
     exports org.ritzwerk.engine.convert;
     exports org.ritzwerk.engine.hydrogenic;
+    exports org.ritzwerk.engine.hyperfine;
     exports org.ritzwerk.engine.identify;
     exports org.ritzwerk.engine.plasma;
     exports org.ritzwerk.engine.profile;

@@ -29,7 +29,9 @@ import picocli.CommandLine.Spec;
             "n -> n' multiplets with --multiplets. --from and --to take any unit; a wavelength",
             "without a medium is in vacuum (write \"400 nm air\" for air). Also the neutral alkali",
             "atoms (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133): lines between their levels (n <= --n-max,",
-            "l <= --l-max), one --transition in detail, or a two-photon --ladder."
+            "l <= --l-max), one --transition in detail, or a two-photon --ladder.",
+            "--hyperfine: the F -> F' components of the D lines of alkali isotopes (also Li-6, K-40,",
+            "K-41), each with its share of the line strength; with --field-tesla their m_F components."
         },
         footer = {"", "Examples:",
             "  ritzwerk lines --species \"H I\" --from \"400 nm air\" --to \"700 nm air\" --medium air",
@@ -38,6 +40,7 @@ import picocli.CommandLine.Spec;
             "  ritzwerk lines --species \"Rb-87 I\" --from 10GHz --to 20GHz --n-max 60",
             "  ritzwerk lines --species \"Rb-87 I\" --transition \"50d5/2 -> 51p3/2\"",
             "  ritzwerk lines --species \"Rb-87 I\" --ladder \"5s1/2,5p3/2,60s1/2\"",
+            "  ritzwerk lines --species \"Rb-87 I\" --hyperfine --field-tesla 0.001",
             "", "Lasers (--ladder) can injure eyes and skin: read the Safety section of",
             "README.md first."})
 final class LinesCommand implements Callable<Integer> {
@@ -88,6 +91,14 @@ final class LinesCommand implements Callable<Integer> {
 
     @Option(names = "--multiplets", description = "Blend each n -> n' transition into one line.")
     boolean multiplets;
+
+    @Option(names = "--hyperfine",
+            description = "Alkali isotopes: the F -> F' components of the D1 and D2 lines (published A, B and centroids).")
+    boolean hyperfine;
+
+    @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA",
+            description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla (0 to 1000).")
+    Double fieldTesla;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
@@ -177,6 +188,9 @@ final class LinesCommand implements Callable<Integer> {
         rules.refuseUnless("--multiplets", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron"
                 + " ion; alkali lines are listed by fine-structure level)");
         rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion)");
+        if (hyperfine || fieldTesla != null) {
+            return hyperfine(atoms, rules);
+        }
         if (single) {
             return single(atoms);
         }
@@ -256,6 +270,26 @@ final class LinesCommand implements Callable<Integer> {
                     t.oscillatorStrength(i), t.lineStrength(i) / (atomicDipole * atomicDipole), line.model);
         }
         output.finish();
+        return 0;
+    }
+
+    /** --hyperfine (with --field-tesla): the D lines' hyperfine and Zeeman components (HyperfineTables). */
+    private int hyperfine(Ions.Atoms atoms, OptionRules rules) {
+        if (!hyperfine) {
+            throw new OptionException(HyperfineTables.FIELD_OPTION + " needs --hyperfine (it gives the Zeeman"
+                    + " components of the hyperfine lines)");
+        }
+        for (String option : new String[] {"--from", "--to", "--n-max", "--l-max", "--min-a", "--multiplets",
+            "--medium", "--transition", "--ladder", "--temperature"}) {
+            rules.refuseUnless(option, false, "with --hyperfine (it lists the D lines' hyperfine components)");
+        }
+        if (atoms.alkalis().isEmpty() || !atoms.ions().isEmpty()) {
+            throw new OptionException("--hyperfine needs alkali isotopes only in --species, e.g. \"Rb-87 I\"");
+        }
+        if (fieldTesla != null) {
+            OptionRules.range(HyperfineTables.FIELD_OPTION, fieldTesla, 0, true, 1000, "a field of 0 to 1000 T");
+        }
+        HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, spec.commandLine().getOut(), format);
         return 0;
     }
 

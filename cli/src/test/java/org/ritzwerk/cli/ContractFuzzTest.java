@@ -211,6 +211,7 @@ class ContractFuzzTest {
             "--temperature", "10000"};
         String[] lines = {"lines", "--species", "H", "--from", "640 nm", "--to", "670 nm"};
         String[] alkali = {"levels", "--species", "Rb-87 I", "--n-max", "7", "--lifetimes"};
+        String[] hyperfine = {"lines", "--species", "Rb-87 I", "--hyperfine"};
         Object[][] cases = {
             {identify, "--n-max"}, {identify, "--search-velocity"}, {identify, "--search-offset"},
             {identify, "--excitation-temperature"}, {identify, "--tolerance"}, {plasma, "--instrument-fwhm"},
@@ -222,6 +223,7 @@ class ContractFuzzTest {
             {synth, "--resolving-power"}, {synth, "--pixels"}, {synth, "--n-max"}, {synth, "--peak-counts"},
             {synth, "--read-noise"}, {synth, "--electron-density"}, {synth, "--threads"}, {synth, "--dispersion"},
             {lines, "--n-max"}, {lines, "--min-a"}, {alkali, "--temperature"}, {alkali, "--l-max"},
+            {hyperfine, "--field-tesla"},
             {new String[] {"convert", "656.28 nm", "--to", "THz"}, "--digits"},
             {new String[] {"convert", "--to", "THz"}, null}};
         Random random = new Random(701 + SEED);

@@ -20,6 +20,7 @@ import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.MeasuredLevel;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.data.ReferenceDataProvider;
 import org.ritzwerk.refdata.DataContext;
@@ -153,7 +154,23 @@ class DataContextCommandTest {
     void aThirdPartyQuantumDefectSetWithCoreAndLevelsGivesTheBuiltInAtom(@TempDir Path dir) throws Exception {
         DataContext builtIn = DataContext.builtIn();
         QuantumDefects defects = (QuantumDefects) builtIn.registry().load("quantum-defects-rb-87");
-        LevelList levels = (LevelList) builtIn.registry().load(defects.levelsId().orElseThrow());
+        LevelList table = (LevelList) builtIn.registry().load(defects.levelsId().orElseThrow());
+        // The built-in atom takes Rb-87's own D-line centroids for 5p (AlkaliHyperfine) in place of the
+        // natural element's table; a third party's table is taken as it is, so the jar gets the table
+        // with those two levels as the built-in atom has them.
+        List<MeasuredLevel> measured = builtIn.alkaliAtom(Species.parse("Rb-87 I")).measuredLevels();
+        LevelList.Builder copy = LevelList.builder(table.info(), table.unit(), table.note());
+        for (int i = 0; i < table.size(); i++) {
+            double energy = table.energy(i);
+            for (MeasuredLevel m : measured) {
+                if (m.state().notation().equals(table.label(i)) && m.source().startsWith("d-lines: ")) {
+                    energy = m.energyPerCm();
+                }
+            }
+            copy.add(table.species(i), table.label(i), energy, table.uncertainty(i).orElse(Double.NaN), table.twoJ(i),
+                    table.rowNote(i));
+        }
+        LevelList levels = copy.build();
         String source = ProviderJars.wholeAlkaliSource("com.example.rydberg.WholeRubidium", defects, levels, "example-qd-rb-87",
                 "example-levels-rb-87");
         String[] args = {"levels", "--species", "Rb-87 I", "--n-max", "20", "--l-max", "4", "--lifetimes",

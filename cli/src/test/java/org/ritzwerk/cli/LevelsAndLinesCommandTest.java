@@ -111,7 +111,8 @@ class LevelsAndLinesCommandTest {
         CliTest.Run helium = CliTest.run("lines", "--species", "He I", "--from", "400 nm", "--to", "700 nm");
         assertEquals(2, helium.code());
         assertEquals("ritzwerk lines: He I: levels and lines cover one-electron ions (H I, D I, He II, C VI, ...) and"
-                + " the neutral alkali atoms [Li-7 I, Na-23 I, K-39 I, Rb-85 I, Rb-87 I, Cs-133 I]", helium.err().strip());
+                + " the neutral alkali atoms [Li-6 I, Li-7 I, Na-23 I, K-39 I, K-40 I, K-41 I, Rb-85 I, Rb-87 I, Cs-133 I]",
+                helium.err().strip());
         CliTest.Run isotope = CliTest.run("levels", "--species", "Fe-60 XXVI");
         assertEquals(2, isotope.code());
         assertTrue(isotope.err().contains("no nuclear data for Fe-60"), isotope.err());

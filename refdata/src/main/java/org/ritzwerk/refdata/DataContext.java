@@ -252,6 +252,12 @@ public final class DataContext {
         QuantumDefects defects = (QuantumDefects) set;
         List<MeasuredLevel> measured = defects.levelsId().map(levelsId -> measuredLevels(id, levelsId, species))
                 .orElse(List.of());
+        // the built-in level tables are the natural element's; the isotope's own D-line centroids replace
+        // their first p levels (a user's or third party's level table is taken as it is)
+        if (defects.levelsId().isPresent()
+                && registry.load(defects.levelsId().get()) == RydbergData.builtIn().byId().get(defects.levelsId().get())) {
+            measured = AlkaliHyperfine.builtIn().withResonanceLevels(species, measured);
+        }
         double rydberg = QuantumDefectFiles.rydbergPerCm(isotope(species).atomicMass());
         return AlkaliAtom.of(defects.withRydbergPerCm(rydberg), measured);
     }
@@ -271,6 +277,15 @@ public final class DataContext {
                     + " in cm-1");
         }
         return RydbergData.measuredLevels((LevelList) set);
+    }
+
+    /**
+     * @return the built-in D-line centroids and hyperfine constants of the alkali isotopes (built-in
+     *         only: the registry has no data-set kind for them yet); their F -> F' and Zeeman
+     *         components take this context for nuclear spins, moments and the atoms' levels
+     */
+    public AlkaliHyperfine alkaliHyperfine() {
+        return AlkaliHyperfine.builtIn();
     }
 
     /**

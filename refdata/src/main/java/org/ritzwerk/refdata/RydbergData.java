@@ -26,7 +26,9 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.quantity.Unit;
 
 /**
- * Ritzwerk's built-in Rydberg data for Li-7, Na-23, K-39, Rb-85, Rb-87 and Cs-133: per isotope a
+ * Ritzwerk's built-in Rydberg data for Li-6, Li-7, Na-23, K-39, K-40, K-41, Rb-85, Rb-87 and Cs-133
+ * (Li-6, K-40 and K-41 share the natural element's quantum defects, limit and higher levels; see the
+ * file headers): per isotope a
  * quantum-defect set ({@code quantum-defects-rb-87}, format {@link QuantumDefectFiles}) and the
  * measured levels below its validity ({@code levels-rb-87}, format {@link LevelListFiles}), both
  * under {@code rydberg/} with the script {@code make_rydberg_data.py} that wrote them and
@@ -51,7 +53,8 @@ import org.ritzwerk.quantity.Unit;
 public final class RydbergData {
 
     /** Isotope file stems, in Z order. */
-    static final List<String> STEMS = List.of("li-7", "na-23", "k-39", "rb-85", "rb-87", "cs-133");
+    static final List<String> STEMS = List.of("li-6", "li-7", "na-23", "k-39", "k-40", "k-41", "rb-85", "rb-87",
+            "cs-133");
 
     private static final Pattern LABEL = Pattern.compile("(\\d{1,3})([spdf]) 2([SPDF])(\\d{1,2})/2");
     private static volatile RydbergData builtIn;
@@ -272,12 +275,14 @@ public final class RydbergData {
     /**
      * @param species a neutral alkali isotope (without mass number: the most abundant one)
      * @return the engine's model of that atom: the quantum defects, the measured levels and the core
-     *         polarizabilities of the built-in data
+     *         polarizabilities of the built-in data, with the isotope's own D-line centroids as its
+     *         first p levels ({@link AlkaliHyperfine#withResonanceLevels})
      * @throws ReferenceDataException when the species is not covered
      */
     public AlkaliAtom atom(Species species) {
         Entry entry = entry(species);
-        return AlkaliAtom.of(entry.content().defects(), measuredLevels(entry.levels()));
+        return AlkaliAtom.of(entry.content().defects(), AlkaliHyperfine.builtIn().withResonanceLevels(
+                entry.content().defects().species(), measuredLevels(entry.levels())));
     }
 
     /**

@@ -8,8 +8,8 @@ import org.ritzwerk.data.ReferenceDataProvider;
 
 /**
  * The built-in Rydberg data ({@link RydbergData}) as a provider: quantum-defect sets
- * {@code quantum-defects-<atom>} and measured low levels {@code levels-<atom>} for Li-7, Na-23,
- * K-39, Rb-85, Rb-87 and Cs-133. Each quantum-defect record carries its core polarizabilities and
+ * {@code quantum-defects-<atom>} and measured low levels {@code levels-<atom>} for Li-6, Li-7, Na-23,
+ * K-39, K-40, K-41, Rb-85, Rb-87 and Cs-133. Each quantum-defect record carries its core polarizabilities and
  * the id of its levels set, as a third party's may. Thread-safe; the files are read on first use.
  */
 public final class RydbergProvider implements ReferenceDataProvider {

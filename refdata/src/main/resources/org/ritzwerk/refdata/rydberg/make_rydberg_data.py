@@ -1,5 +1,5 @@
 #!/usr/bin/python3
-"""Writes Ritzwerk's built-in Rydberg data for Li-7, Na-23, K-39, Rb-85, Rb-87 and Cs-133.
+"""Writes Ritzwerk's built-in Rydberg data for Li-6, Li-7, Na-23, K-39, K-40, K-41, Rb-85, Rb-87 and Cs-133.
 
 Run from this folder:   /usr/bin/python3 make_rydberg_data.py
 Needs only the Python 3 standard library.  Deterministic: rewrites the same bytes each time.
@@ -78,7 +78,7 @@ REGULARITY_PER_CM = 1.0
 
 # Atomic masses in u, AME2020, as in ../nuclear/isotopes.csv (the provider computes R_M from that
 # file at run time; these copies serve only the checks below).
-MASS_U = {"li-7": 7.01600343426, "na-23": 22.98976928195, "k-39": 38.96370648482,
+MASS_U = {"li-6": 6.01512288742, "li-7": 7.01600343426, "k-40": 39.963998165, "k-41": 40.96182525611, "na-23": 22.98976928195, "k-39": 38.96370648482,
           "rb-85": 84.91178973604, "rb-87": 86.909180529, "cs-133": 132.905451958}
 
 # ---------------------------------------------------------------------------------------------
@@ -515,11 +515,24 @@ Cs 55 15.6440 2 4.32466196 1.61365288 -6.70128850 -0.74095193 0.93007296
 Cs 55 15.6440 3 3.01048361 1.40000001 -3.20036138 0.00034538 1.99969677
 """
 
+# Li-6, K-40 and K-41 share the quantum defects, the ionisation limit, the core polarizabilities and
+# the measured levels of the natural element (whose sets are those of Li-7 and K-39): no
+# isotope-specific series or limits were at hand.  Only R_M (from the isotope's own mass) differs, and
+# their resonance levels (the D lines) come from their own measurements in d-lines.csv, which refdata
+# puts in place of the natural element's.
+SHARED = {"li-6": "li-7", "k-40": "k-39", "k-41": "k-39"}
+for _shared, _natural in SHARED.items():
+    LIMITS[_shared] = LIMITS[_natural]
+    CORE[_shared] = CORE[_natural]
+
 ATOMS = [
     # id, symbol, Z, A, series, levels text, D-line source, version
+    ("li-6", "Li", 3, 6, LI_SERIES, LI_LEVELS, "d-lines.csv (the isotope's own D lines)", "1986"),
     ("li-7", "Li", 3, 7, LI_SERIES, LI_LEVELS, "C. J. Sansonetti et al., Phys. Rev. Lett. 107, 023001 (2011), Li-7 D lines (from memory)", "1986"),
     ("na-23", "Na", 11, 23, NA_SERIES, NA_LEVELS, "D. A. Steck, Sodium D Line Data (from memory)", "1983"),
     ("k-39", "K", 19, 39, K_SERIES, K_LEVELS, "T. G. Tiecke, Properties of Potassium (from memory)", "1983"),
+    ("k-40", "K", 19, 40, K_SERIES, K_LEVELS, "d-lines.csv (the isotope's own D lines)", "1983"),
+    ("k-41", "K", 19, 41, K_SERIES, K_LEVELS, "d-lines.csv (the isotope's own D lines)", "1983"),
     ("rb-85", "Rb", 37, 85, RB_85_SERIES, RB_LEVELS, "D. A. Steck, Rubidium 85 D Line Data (from memory)", "2006"),
     ("rb-87", "Rb", 37, 87, RB_87_SERIES, RB_LEVELS, "D. A. Steck, Rubidium 87 D Line Data (from memory)", "2011"),
     ("cs-133", "Cs", 55, 133, CS_SERIES, CS_LEVELS, "D. A. Steck, Cesium D Line Data (from memory)", "2016"),
@@ -669,7 +682,7 @@ def series_of(levels, l, two_j):
 def check_model_potentials():
     """Check 4 for every row of MODEL_POTENTIALS: [(fields, state, model, measured, relative difference)]."""
     results = []
-    by_symbol = {atom[1]: atom for atom in ATOMS if atom[0] != "rb-85"}
+    by_symbol = {atom[1]: atom for atom in ATOMS if atom[0] != "rb-85" and atom[0] not in SHARED}
     for line in MODEL_POTENTIALS.strip().splitlines():
         el, zt, ac, lt, a1, a2, a3, a4, rc = line.split()
         atom_id, symbol, z, a, series, levels_text, d_line_source, version = by_symbol[el]
@@ -707,6 +720,8 @@ def main():
     problems = []
     second_values = {}
     for atom_id, symbol, z, a, series, levels_text, d_line_source, version in ATOMS:
+        if atom_id in SHARED:
+            continue
         for l, two_j, coefficients, paper in series:
             second_values.setdefault((symbol, l, two_j), []).append((atom_id, coefficients, paper))
     for atom_id, symbol, z, a, series, levels_text, d_line_source, version in ATOMS:
@@ -816,7 +831,7 @@ def main():
                "energies are above the ground level (hyperfine centroid); R_M is not stored: the provider "
                "computes it from the atomic mass in nuclear/isotopes.csv; valid-from-n is the lowest n from "
                "which the formula agrees with the measured levels within %.2f cm-1; below it the engine uses "
-               "levels-%s.csv" % (TOLERANCE_PER_CM, atom_id),
+               "levels-%s.csv%s" % (TOLERANCE_PER_CM, atom_id, shared_note(atom_id)),
                "l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,checked"]
         for l, two_j, coefficients, paper in series:
             cs = list(coefficients) + [0.0] * (5 - len(coefficients))
@@ -845,7 +860,7 @@ def main():
               "isotope shifts (below 0.01 cm-1 here) not applied; column note says how each level was checked "
               "(D line: against %s; check 1: published Rydberg-Ritz formula minus level; check 2: residual "
               "from the series' own regularity; fit-residuals.txt); written by make_rydberg_data.py"
-              % d_line_source,
+              % d_line_source + shared_note(atom_id),
               "species,label,energy,uncertainty,j,note"]
         for e, n, l, two_j, text in keep:
             u = 0.0 if e == 0 else 0.5 * last_digit_unit(text)
@@ -894,6 +909,19 @@ def main():
         report.extend("#   " + p for p in problems)
     with open("fit-residuals.txt", "w") as f:
         f.write("\n".join(report) + "\n")
+
+
+def shared_note(atom_id):
+    """The header note of a set shared with the natural element (empty for the others)."""
+    if atom_id not in SHARED:
+        return ""
+    return ("; SHARED with the natural element: the series, limit, core polarizabilities and measured levels "
+            "are those of quantum-defects-%s / levels-%s (no isotope-specific data at hand), only R_M is this "
+            "isotope's; its resonance levels come from its own D lines (d-lines.csv)" % (SHARED[atom_id],
+                                                                                            SHARED[atom_id])) + (
+        "; for Li-6 the isotope shift of the other levels (about 0.35 cm-1, like the D lines' 10.5 GHz) is NOT "
+        "applied: the 'below 0.01 cm-1' above does not hold for Li-6, whose levels other than 2p are good to "
+        "about 0.4 cm-1 only" if atom_id == "li-6" else "")
 
 
 def polarization_defect(n, l, alpha_d, alpha_q):

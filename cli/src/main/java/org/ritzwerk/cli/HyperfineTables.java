@@ -1,0 +1,98 @@
+package org.ritzwerk.cli;
+
+import java.io.PrintWriter;
+import java.util.List;
+import java.util.Locale;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hyperfine.HyperfineComponent;
+import org.ritzwerk.engine.hyperfine.ZeemanComponent;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.refdata.AlkaliHyperfine;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * {@code lines --hyperfine}: the F -> F' components of the D lines of alkali isotopes, and with
+ * {@code --field-tesla} their m_F-resolved Zeeman components. Formatting only: the components come
+ * from {@link AlkaliHyperfine}.
+ */
+final class HyperfineTables {
+
+    /** The option that asks for Zeeman components, in tesla. */
+    static final String FIELD_OPTION = "--field-tesla";
+
+    private HyperfineTables() {
+    }
+
+    /**
+     * Prints the components of the D1 and D2 lines of every atom.
+     *
+     * @param context    the data context
+     * @param atoms      alkali atoms (isotopes)
+     * @param fieldTesla the field in tesla, or null for the zero-field F -> F' components
+     * @param out        where the table goes
+     * @param format     the table format
+     */
+    static void print(DataContext context, List<AlkaliAtom> atoms, Double fieldTesla, PrintWriter out,
+            Table.Format format) {
+        AlkaliHyperfine data = context.alkaliHyperfine();
+        for (AlkaliAtom atom : atoms) {
+            if (data.dLines(atom.species()).isEmpty()) {
+                throw new OptionException("--hyperfine: no D-line and hyperfine data for " + atom.species().notation()
+                        + "; isotopes with data: " + String.join(", ", data.species().stream().map(Species::notation)
+                                .toList()));
+            }
+        }
+        boolean zeeman = fieldTesla != null;
+        Table table = new Table(zeeman ? List.of(
+                Table.Column.text("species", "species"),
+                Table.Column.text("line", "line"),
+                Table.Column.text("lower", "lower"),
+                Table.Column.text("upper", "upper"),
+                Table.Column.text("polarisation", "pol"),
+                Table.Column.number("frequency_hz", "Hz", "%.12e"),
+                Table.Column.number("offset_mhz", "MHz from centroid", "%.4f"),
+                Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.7f"),
+                Table.Column.number("relative_strength", "share", "%.6f"),
+                Table.Column.number("field_tesla", "T", "%.6g")) : List.of(
+                Table.Column.text("species", "species"),
+                Table.Column.text("line", "line"),
+                Table.Column.text("lower", "lower"),
+                Table.Column.text("upper", "upper"),
+                Table.Column.number("frequency_hz", "Hz", "%.12e"),
+                Table.Column.number("offset_mhz", "MHz from centroid", "%.4f"),
+                Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.7f"),
+                Table.Column.number("relative_strength", "share", "%.6f")), out, format);
+        for (AlkaliAtom atom : atoms) {
+            Species species = atom.species();
+            State ground = atom.groundState();
+            for (AlkaliHyperfine.DLine d : data.dLines(species)) {
+                State upper = State.of(ground.n(), 1, d.twoJUpper());
+                double centroid = atom.frequencyHz(ground, upper);
+                if (zeeman) {
+                    for (ZeemanComponent c : data.zeemanComponents(context, species, ground, upper, fieldTesla)) {
+                        table.add(species.notation(), d.line(),
+                                ground.notation() + " F=" + half(c.twoFLower()) + " mF=" + half(c.twoMFLower()),
+                                upper.notation() + " F'=" + half(c.twoFUpper()) + " mF'=" + half(c.twoMFUpper()),
+                                c.q() == 0 ? "pi" : c.q() > 0 ? "sigma+" : "sigma-", c.frequencyHertz(),
+                                (c.frequencyHertz() - centroid) / 1e6, PhysicalConstants.C / c.frequencyHertz() * 1e9,
+                                c.relativeStrength(), fieldTesla);
+                    }
+                } else {
+                    for (HyperfineComponent c : data.components(context, species, ground, upper)) {
+                        table.add(species.notation(), d.line(), ground.notation() + " F=" + half(c.twoFLower()),
+                                upper.notation() + " F'=" + half(c.twoFUpper()), c.frequencyHertz(),
+                                (c.frequencyHertz() - centroid) / 1e6, PhysicalConstants.C / c.frequencyHertz() * 1e9,
+                                c.relativeStrength());
+                    }
+                }
+            }
+        }
+        table.finish();
+    }
+
+    private static String half(int two) {
+        return (two & 1) == 0 ? Integer.toString(two / 2) : String.format(Locale.ROOT, "%d/2", two);
+    }
+}

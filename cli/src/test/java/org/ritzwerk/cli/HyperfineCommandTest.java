@@ -1,0 +1,74 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.junit.jupiter.api.Test;
+
+/** {@code lines --hyperfine} and {@code --field-tesla}: the D lines' hyperfine and Zeeman components. */
+class HyperfineCommandTest {
+
+    @Test
+    void rb87D2CoolingLineAndTheSumRule() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--format", "csv");
+        assertEquals(0, run.code(), run.err());
+        String[] rows = run.out().strip().split("\n");
+        assertEquals("species,line,lower,upper,frequency_hz,offset_mhz,vacuum_wavelength_nm,relative_strength", rows[0]);
+        assertEquals(1 + 4 + 6, rows.length, run.out());
+        double d1 = 0;
+        double d2 = 0;
+        String cooling = null;
+        for (int i = 1; i < rows.length; i++) {
+            String[] f = rows[i].split(",");
+            double share = Double.parseDouble(f[f.length - 1]);
+            if (f[1].equals("D1")) {
+                d1 += share;
+            } else {
+                d2 += share;
+            }
+            if (rows[i].contains("F=2\",\"5p 2P3/2 F'=3")) {
+                cooling = rows[i];
+            }
+        }
+        assertEquals(1, d1, 1e-12);
+        assertEquals(1, d2, 1e-12);
+        // F = 2 -> F' = 3 of the Rb-87 D2 line at 384 228 115.2 MHz: the centroid 384 230 484.4685 MHz
+        // (Ye et al., Opt. Lett. 21, 1280 (1996), from memory) - 2563.006 MHz + 193.741 MHz (A and B of the
+        // data file, by hand); the usual cooling-laser reference (common practice)
+        assertTrue(cooling != null, run.out());
+        assertEquals(384228115.2e6, Double.parseDouble(cooling.split(",")[4]), 0.1e6, cooling);
+    }
+
+    @Test
+    void zeemanComponentsInAField() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Cs-133 I", "--hyperfine", "--field-tesla", "0.001",
+                "--format", "csv");
+        assertEquals(0, run.code(), run.err());
+        String[] rows = run.out().strip().split("\n");
+        assertTrue(rows[0].endsWith(",relative_strength,field_tesla"), rows[0]);
+        double d2 = 0;
+        for (int i = 1; i < rows.length; i++) {
+            String[] f = rows[i].split(",");
+            if (f[1].equals("D2")) {
+                d2 += Double.parseDouble(f[f.length - 2]);
+            }
+        }
+        assertEquals(1, d2, 1e-9);
+    }
+
+    @Test
+    void badInputIsRefusedWithExit2() {
+        CliTest.Run negative = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "-1");
+        assertEquals(2, negative.code());
+        assertTrue(negative.err().contains("--field-tesla must be a field of 0 to 1000 T, got -1"), negative.err());
+        CliTest.Run alone = CliTest.run("lines", "--species", "Rb-87 I", "--field-tesla", "0.1");
+        assertEquals(2, alone.code());
+        assertTrue(alone.err().contains("--field-tesla needs --hyperfine"), alone.err());
+        CliTest.Run ion = CliTest.run("lines", "--species", "H I", "--hyperfine");
+        assertEquals(2, ion.code());
+        assertTrue(ion.err().contains("--hyperfine needs alkali isotopes"), ion.err());
+        CliTest.Run window = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--from", "1 GHz");
+        assertEquals(2, window.code());
+        assertTrue(window.err().contains("--from has no effect with --hyperfine"), window.err());
+    }
+}

@@ -1,0 +1,110 @@
+package org.ritzwerk.engine.hyperfine;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.quicktheories.QuickTheory.qt;
+import static org.quicktheories.generators.SourceDSL.integers;
+
+import java.util.List;
+import org.junit.jupiter.api.Test;
+
+class HyperfineStructureTest {
+
+    private static final HyperfineConstants RB87_5S = HyperfineConstants.ofMegahertz(3417.34130545215, 0,
+            "S. Bize et al., Europhys. Lett. 45, 558 (1999) (from memory)");
+    private static final HyperfineConstants RB87_5P32 = HyperfineConstants.ofMegahertz(84.7185, 12.4965,
+            "J. Ye et al., Opt. Lett. 21, 1280 (1996) (from memory)");
+
+    @Test
+    void rb87GroundSplittingIsTwoA() {
+        // S. Bize et al., Europhys. Lett. 45, 558 (1999): 6 834.682 610 904 29(9) MHz (from memory)
+        assertEquals(6834.68261090429e6, HyperfineStructure.splittingHertz(3, 1, RB87_5S), 1e-3);
+    }
+
+    @Test
+    void rb87FiveP32IntervalsFromAAndB() {
+        // intervals of the Casimir formula, by hand: E(F') = A K/2 + B (3/2 K(K+1) - 2 I(I+1)J(J+1)) / (4 I(2I-1) J(2J-1))
+        // F'=3-2: 3A + B; F'=2-1: 2A - B; F'=1-0: A - B
+        List<HyperfineLevel> levels = HyperfineStructure.levels(3, 3, RB87_5P32);
+        assertEquals(4, levels.size());
+        assertEquals((3 * 84.7185 + 12.4965) * 1e6, levels.get(3).shiftHertz() - levels.get(2).shiftHertz(), 1e-3);
+        assertEquals((2 * 84.7185 - 12.4965) * 1e6, levels.get(2).shiftHertz() - levels.get(1).shiftHertz(), 1e-3);
+        assertEquals((84.7185 - 12.4965) * 1e6, levels.get(1).shiftHertz() - levels.get(0).shiftHertz(), 1e-3);
+    }
+
+    @Test
+    void weightedCentroidOfTheFLevelsIsZero() {
+        qt().withFixedSeed(17L).forAll(integers().between(0, 9), integers().between(1, 7), integers().between(-500, 500),
+                integers().between(-200, 200)).checkAssert((twoI, twoJ, a, b) -> {
+                    HyperfineConstants c = HyperfineConstants.ofMegahertz(a, b, "test values");
+                    double sum = 0;
+                    double scale = 0;
+                    for (HyperfineLevel f : HyperfineStructure.levels(twoI, twoJ, c)) {
+                        sum += (f.twoF() + 1) * f.shiftHertz();
+                        scale += (f.twoF() + 1) * Math.abs(f.shiftHertz());
+                    }
+                    assertEquals(0, sum, 1e-12 * Math.max(1, scale));
+                });
+    }
+
+    @Test
+    void componentSharesSumToOneAndPerLowerF() {
+        // sum over F, F' of (2F+1)(2F'+1){J F I; F' J' 1}^2 = 2I+1 (Edmonds eq. 6.2.9 orthogonality)
+        qt().withFixedSeed(1931L).forAll(integers().between(0, 9), integers().between(0, 2), integers().between(0, 2))
+                .checkAssert((twoI, l, step) -> {
+                    int twoJ = 2 * l + 1;
+                    int twoJp = twoJ + 2 * step - 2;
+                    if (twoJp < 1) {
+                        return;
+                    }
+                    HyperfineConstants c = HyperfineConstants.ofMegahertz(100, 10, "test values");
+                    List<HyperfineComponent> comps = HyperfineStructure.components(twoI, twoJ, c, twoJp, c, 0);
+                    double total = comps.stream().mapToDouble(HyperfineComponent::relativeStrength).sum();
+                    assertEquals(1, total, 1e-12);
+                    for (HyperfineLevel f : HyperfineStructure.levels(twoI, twoJ, c)) {
+                        double perF = comps.stream().filter(x -> x.twoFLower() == f.twoF())
+                                .mapToDouble(HyperfineComponent::relativeStrength).sum();
+                        assertEquals((f.twoF() + 1.0) / ((twoJ + 1.0) * (twoI + 1.0)), perF, 1e-12);
+                    }
+                });
+    }
+
+    @Test
+    void rb87D2CyclingComponent() {
+        // F = 2 -> F' = 3 carries 7/10 of the F = 2 strength (common practice; alkali D-line data sheets,
+        // from memory); its share of the whole line is 7/10 * 5/8
+        List<HyperfineComponent> comps = HyperfineStructure.components(3, 1, RB87_5S, 3, RB87_5P32, 384.2304844685e12);
+        assertEquals(6, comps.size());
+        HyperfineComponent cycling = comps.stream().filter(c -> c.twoFLower() == 4 && c.twoFUpper() == 6).findFirst()
+                .orElseThrow();
+        assertEquals(0.7 * 5 / 8, cycling.relativeStrength(), 1e-14);
+        // frequency = centroid + shift of F' = 3 - shift of F = 2; F = 2 lies 3A/4 above the ground centroid
+        double upper3 = HyperfineStructure.shiftHertz(3, 3, 6, RB87_5P32);
+        double lower2 = HyperfineStructure.shiftHertz(3, 1, 4, RB87_5S);
+        assertEquals(384.2304844685e12 + upper3 - lower2, cycling.frequencyHertz(), 1e-3);
+        assertEquals(3417.34130545215e6 * 0.75, lower2, 1e-3);
+    }
+
+    @Test
+    void deltaFTwoAndZeroToZeroAreAbsent() {
+        HyperfineConstants c = HyperfineConstants.ofMegahertz(100, 5, "test values");
+        for (HyperfineComponent x : HyperfineStructure.components(3, 1, c, 3, c, 0)) {
+            assertTrue(Math.abs(x.twoFLower() - x.twoFUpper()) <= 2);
+        }
+        // I = 1/2, J = 1/2 -> J' = 1/2: F = 0 -> F' = 0 is forbidden
+        assertTrue(HyperfineStructure.components(1, 1, c, 1, c, 0).stream()
+                .noneMatch(x -> x.twoFLower() == 0 && x.twoFUpper() == 0));
+    }
+
+    @Test
+    void badInputsAreRefused() {
+        HyperfineConstants c = HyperfineConstants.ofMegahertz(1, 0, "x");
+        assertThrows(IllegalArgumentException.class, () -> HyperfineStructure.levels(-1, 1, c));
+        assertThrows(IllegalArgumentException.class, () -> HyperfineStructure.levels(3, 0, c));
+        assertThrows(IllegalArgumentException.class, () -> HyperfineStructure.shiftHertz(3, 1, 6, c));
+        assertThrows(IllegalArgumentException.class, () -> HyperfineStructure.components(3, 1, c, 5, c, 0));
+        assertThrows(IllegalArgumentException.class, () -> HyperfineConstants.ofMegahertz(Double.NaN, 0, "x"));
+        assertThrows(IllegalArgumentException.class, () -> HyperfineConstants.ofMegahertz(1, 0, " "));
+    }
+}

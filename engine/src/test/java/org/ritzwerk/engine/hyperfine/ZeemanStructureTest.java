@@ -1,0 +1,99 @@
+package org.ritzwerk.engine.hyperfine;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+
+import java.util.List;
+import org.junit.jupiter.api.Test;
+
+class ZeemanStructureTest {
+
+    private static final HyperfineConstants RB87_5S = HyperfineConstants.ofMegahertz(3417.34130545215, 0, "x");
+    private static final HyperfineConstants CS_6P32 = HyperfineConstants.ofMegahertz(50.28827, -0.4934, "x");
+    private static final HyperfineConstants CS_6S = HyperfineConstants.ofMegahertz(2298.1579425, 0, "x");
+    private static final double G_J = 2.00233113; // Rb 5s g_J (from memory; any value serves these identities)
+    private static final double G_I = -0.0009951414;
+
+    @Test
+    void constantsFromCodata2018() {
+        // CODATA 2018: mu_B/h = 13.996 244 936 1(42) GHz/T; g_e = -2.002 319 304 362 56(35) (from memory)
+        assertEquals(13.9962449361e9, ZeemanStructure.bohrMagnetonHertzPerTesla(), 5);
+        assertEquals(2.00231930436256, ZeemanStructure.electronSpinG(), 1e-14);
+        // Lande: p1/2 = (4 - g_S)/3 ... = 2/3 - (g_S - 2)/3; p3/2 = 4/3 + (g_S - 2)/3
+        double gs = ZeemanStructure.electronSpinG();
+        assertEquals((4 - gs) / 3, ZeemanStructure.landeG(1, 1), 1e-15);
+        assertEquals((2 + gs) / 3, ZeemanStructure.landeG(1, 3), 1e-15);
+        assertEquals(gs, ZeemanStructure.landeG(0, 1), 1e-15);
+    }
+
+    @Test
+    void breitRabiMatchesTheDiagonalisedHamiltonian() {
+        double split = HyperfineStructure.splittingHertz(3, 1, RB87_5S);
+        for (double tesla : new double[] {0, 1e-5, 1e-3, 0.05, 0.2441, 1, 10}) {
+            List<ZeemanState> states = ZeemanStructure.eigenstates(3, 1, RB87_5S, G_J, G_I, tesla);
+            assertEquals(8, states.size());
+            for (ZeemanState s : states) {
+                double br = ZeemanStructure.breitRabiHertz(3, s.twoF(), s.twoMF(), split, G_J, G_I, tesla);
+                assertEquals(br, s.energyHertz(), 1e-3,
+                        "B = " + tesla + " T, F = " + s.fLabel() + ", mF = " + s.mFLabel());
+            }
+        }
+        // Cs-133 ground level (I = 7/2), too
+        double cs = HyperfineStructure.splittingHertz(7, 1, CS_6S);
+        for (double tesla : new double[] {1e-4, 0.3, 3}) {
+            for (ZeemanState s : ZeemanStructure.eigenstates(7, 1, CS_6S, G_J, -0.00039885395, tesla)) {
+                assertEquals(ZeemanStructure.breitRabiHertz(7, s.twoF(), s.twoMF(), cs, G_J, -0.00039885395, tesla),
+                        s.energyHertz(), 1e-3);
+            }
+        }
+    }
+
+    @Test
+    void lowFieldIsLinearWithGF() {
+        // E = E_F + g_F m_F mu_B B, g_F = g_J [F(F+1) - I(I+1) + J(J+1)] / 2F(F+1) + g_I [F(F+1) + I(I+1) - J(J+1)] / 2F(F+1)
+        double tesla = 1e-7;
+        double mub = ZeemanStructure.bohrMagnetonHertzPerTesla() * tesla;
+        double gJ = ZeemanStructure.landeG(1, 3);
+        for (ZeemanState s : ZeemanStructure.eigenstates(7, 3, CS_6P32, gJ, G_I, tesla)) {
+            double f = s.twoF() / 2.0;
+            double i = 3.5;
+            double j = 1.5;
+            double gF = gJ * (f * (f + 1) - i * (i + 1) + j * (j + 1)) / (2 * f * (f + 1))
+                    + G_I * (f * (f + 1) + i * (i + 1) - j * (j + 1)) / (2 * f * (f + 1));
+            double expected = HyperfineStructure.shiftHertz(7, 3, s.twoF(), CS_6P32) + gF * s.twoMF() / 2.0 * mub;
+            assertEquals(expected, s.energyHertz(), 0.05, "F = " + s.fLabel() + ", mF = " + s.mFLabel());
+        }
+    }
+
+    @Test
+    void zeroFieldEigenvaluesAreTheCasimirLevels() {
+        for (ZeemanState s : ZeemanStructure.eigenstates(7, 3, CS_6P32, 1.33, G_I, 0)) {
+            assertEquals(HyperfineStructure.shiftHertz(7, 3, s.twoF(), CS_6P32), s.energyHertz(), 1e-4);
+        }
+    }
+
+    @Test
+    void zeemanComponentSharesSumToOneAtAnyField() {
+        double gJ1 = ZeemanStructure.landeG(0, 1);
+        double gJ2 = ZeemanStructure.landeG(1, 3);
+        for (double tesla : new double[] {0, 1e-4, 0.01, 0.5}) {
+            List<ZeemanComponent> comps = ZeemanStructure.components(7, 1, CS_6S, gJ1, 3, CS_6P32, gJ2, G_I, 0, tesla);
+            assertEquals(1, comps.stream().mapToDouble(ZeemanComponent::relativeStrength).sum(), 1e-10, "B = " + tesla);
+        }
+        // at zero field the m_F components of F -> F' add up to the zero-field F -> F' share
+        List<ZeemanComponent> zero = ZeemanStructure.components(7, 1, CS_6S, gJ1, 3, CS_6P32, gJ2, G_I, 0, 0);
+        for (HyperfineComponent hc : HyperfineStructure.components(7, 1, CS_6S, 3, CS_6P32, 0)) {
+            double sum = zero.stream().filter(z -> z.twoFLower() == hc.twoFLower() && z.twoFUpper() == hc.twoFUpper())
+                    .mapToDouble(ZeemanComponent::relativeStrength).sum();
+            assertEquals(hc.relativeStrength(), sum, 1e-10);
+        }
+    }
+
+    @Test
+    void badFieldIsRefused() {
+        assertThrows(IllegalArgumentException.class, () -> ZeemanStructure.eigenstates(3, 1, RB87_5S, 2, 0, -1));
+        assertThrows(IllegalArgumentException.class, () -> ZeemanStructure.eigenstates(3, 1, RB87_5S, 2, 0, Double.NaN));
+        assertThrows(IllegalArgumentException.class,
+                () -> ZeemanStructure.breitRabiHertz(3, 6, 0, 1e9, 2, 0, 1));
+    }
+}

@@ -1,0 +1,434 @@
+package org.ritzwerk.refdata;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.io.UncheckedIOException;
+import java.math.BigDecimal;
+import java.math.MathContext;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.Provenance;
+import org.ritzwerk.engine.hyperfine.HyperfineComponent;
+import org.ritzwerk.engine.hyperfine.HyperfineConstants;
+import org.ritzwerk.engine.hyperfine.HyperfineStructure;
+import org.ritzwerk.engine.hyperfine.ZeemanComponent;
+import org.ritzwerk.engine.hyperfine.ZeemanStructure;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+
+/**
+ * Ritzwerk's built-in D-line centroids and hyperfine constants of the alkali isotopes Li-6, Li-7,
+ * Na-23, K-39, K-40, K-41, Rb-85, Rb-87 and Cs-133 (files {@code rydberg/d-lines.csv} and
+ * {@code rydberg/hyperfine-constants.csv}, written with their checks by {@code make_d_lines.py};
+ * every row names its measurement and says whether its digits were read in the source or recalled).
+ *
+ * <p><b>D lines.</b> Each isotope's hyperfine-free D1 and D2 centroids, stored as their source prints
+ * them (text digits and unit: MHz, kHz, or cm-1), converted here exactly (decimal arithmetic, c =
+ * 299 792 458 m/s) to the np 2P1/2 and np 2P3/2 levels above the ground level's centroid.
+ * {@link DataContext#alkaliAtom} and {@link RydbergData#atom} put them in place of the natural
+ * element's levels ({@link #withResonanceLevels}), so each isotope's first p levels are its own.
+ *
+ * <p><b>Hyperfine constants.</b> A and B (MHz) of the ground and first p levels; with the nuclear
+ * spin from the nuclear data they give the F levels, the F -> F' components of the D lines
+ * ({@link #components}) and, with the g factors, their Zeeman components ({@link #zeemanComponents}).
+ *
+ * <p>Read once, on first use; immutable and thread-safe.
+ */
+public final class AlkaliHyperfine {
+
+    /** The D-line file's format name. */
+    public static final String D_LINE_FORMAT = "ritzwerk-d-lines";
+    /** The D-line file's columns, in order. */
+    public static final List<String> D_LINE_COLUMNS = List.of("species", "line", "frequency", "uncertainty", "unit",
+            "provenance", "source", "checked");
+    /** The hyperfine-constant file's format name. */
+    public static final String CONSTANTS_FORMAT = "ritzwerk-hyperfine";
+    /** The hyperfine-constant file's columns, in order. */
+    public static final List<String> CONSTANTS_COLUMNS = List.of("species", "level", "a", "a-uncertainty", "b",
+            "b-uncertainty", "provenance", "source", "checked");
+    /** Units a D-line centroid may be stored in. */
+    public static final List<String> D_LINE_UNITS = List.of("MHz", "kHz", "GHz", "cm-1");
+
+    private static final BigDecimal C_MHZ_PER_CM = new BigDecimal("29979.2458");
+    private static final Pattern LABEL = Pattern.compile("(\\d{1,3})([spdf]) 2([SPDF])(\\d{1,2})/2");
+    private static volatile AlkaliHyperfine builtIn;
+
+    /**
+     * One hyperfine-free D-line centroid as its source gives it.
+     *
+     * @param species          the isotope, e.g. Rb-87 I
+     * @param line             {@code D1} or {@code D2}
+     * @param frequencyText    the value's digits exactly as the source prints them (no spaces)
+     * @param uncertaintyText  its standard uncertainty, same unit, as printed
+     * @param unit             {@code MHz}, {@code kHz}, {@code GHz} or {@code cm-1}
+     * @param frequencyHertz   the value in Hz (for cm-1: times c, exactly)
+     * @param uncertaintyHertz the uncertainty in Hz
+     * @param wavenumberPerCm  the value in cm-1 (for a frequency: divided by c, exactly), i.e. the
+     *                         upper level's energy above the ground level's centroid
+     * @param provenance       published (digits read in the source) or from-memory
+     * @param source           the measurement
+     * @param checked          how the value was checked
+     */
+    public record DLine(Species species, String line, String frequencyText, String uncertaintyText, String unit,
+            double frequencyHertz, double uncertaintyHertz, double wavenumberPerCm, Provenance.Kind provenance,
+            String source, String checked) {
+
+        /** @return 2 J of the upper level: 1 for D1, 3 for D2 */
+        public int twoJUpper() {
+            return line.equals("D1") ? 1 : 3;
+        }
+    }
+
+    /**
+     * The hyperfine constants of one level as the source gives them.
+     *
+     * @param species    the isotope
+     * @param state      the level, e.g. 5p 2P3/2
+     * @param aText      A in MHz as printed
+     * @param aUncertaintyText its uncertainty as printed
+     * @param bText      B in MHz as printed, empty for J = 1/2
+     * @param bUncertaintyText its uncertainty as printed, empty for J = 1/2
+     * @param constants  A and B as the engine takes them
+     * @param provenance published or from-memory
+     * @param source     the measurement or review
+     * @param checked    how the values were checked
+     */
+    public record LevelConstants(Species species, State state, String aText, String aUncertaintyText, String bText,
+            String bUncertaintyText, HyperfineConstants constants, Provenance.Kind provenance, String source,
+            String checked) {
+    }
+
+    private final Map<Species, List<DLine>> dLines;
+    private final Map<Species, Map<State, LevelConstants>> constants;
+
+    private AlkaliHyperfine(Map<Species, List<DLine>> dLines, Map<Species, Map<State, LevelConstants>> constants) {
+        this.dLines = dLines;
+        this.constants = constants;
+    }
+
+    /** @return the built-in data, read on first use (thread-safe) */
+    public static AlkaliHyperfine builtIn() {
+        AlkaliHyperfine data = builtIn;
+        if (data == null) {
+            synchronized (AlkaliHyperfine.class) {
+                data = builtIn;
+                if (data == null) {
+                    String d = "rydberg/d-lines.csv";
+                    String h = "rydberg/hyperfine-constants.csv";
+                    try (InputStream in = open(d); InputStream hin = open(h)) {
+                        data = read(in, d, hin, h);
+                    } catch (IOException e) {
+                        throw new UncheckedIOException(e.getMessage(), e);
+                    }
+                    builtIn = data;
+                }
+            }
+        }
+        return data;
+    }
+
+    /**
+     * Reads a D-line file and a hyperfine-constant file (formats {@value #D_LINE_FORMAT} 1 and
+     * {@value #CONSTANTS_FORMAT} 1: a format line, {@code # key: value} header lines, the column row
+     * and one row per value; see the built-in files).
+     *
+     * @param dLineFile        the D-line file's bytes (UTF-8)
+     * @param dLineName        its name for messages
+     * @param constantsFile    the hyperfine-constant file's bytes (UTF-8)
+     * @param constantsName    its name for messages
+     * @return the data
+     * @throws ReferenceDataException naming file, line and problem
+     */
+    public static AlkaliHyperfine read(InputStream dLineFile, String dLineName, InputStream constantsFile,
+            String constantsName) {
+        Map<Species, List<DLine>> lines = new LinkedHashMap<>();
+        for (Row row : rows(dLineFile, dLineName, D_LINE_FORMAT, D_LINE_COLUMNS)) {
+            try {
+                Species species = Species.parse(row.f[0]);
+                String line = row.f[1];
+                if (!line.equals("D1") && !line.equals("D2")) {
+                    throw new IllegalArgumentException("line must be D1 or D2, got '" + line + "'");
+                }
+                String unit = row.f[4];
+                if (!D_LINE_UNITS.contains(unit)) {
+                    throw new IllegalArgumentException("unit must be one of " + D_LINE_UNITS + ", got '" + unit + "'");
+                }
+                BigDecimal value = new BigDecimal(row.f[2]);
+                BigDecimal unc = new BigDecimal(row.f[3]);
+                if (value.signum() <= 0 || unc.signum() < 0) {
+                    throw new IllegalArgumentException("frequency must be positive and its uncertainty not negative");
+                }
+                BigDecimal mhz = toMegahertz(value, unit);
+                BigDecimal perCm = unit.equals("cm-1") ? value : mhz.divide(C_MHZ_PER_CM, MathContext.DECIMAL128);
+                DLine d = new DLine(species, line, row.f[2], row.f[3], unit, mhz.movePointRight(6).doubleValue(),
+                        toMegahertz(unc, unit).movePointRight(6).doubleValue(), perCm.doubleValue(),
+                        Provenance.Kind.fromId(row.f[5]), row.f[6], row.f[7]);
+                List<DLine> list = lines.computeIfAbsent(species, k -> new ArrayList<>());
+                if (list.stream().anyMatch(x -> x.line().equals(line))) {
+                    throw new IllegalArgumentException("second " + line + " of " + species.notation());
+                }
+                list.add(d);
+            } catch (RuntimeException e) {
+                throw bad(dLineName, row.number, e.getMessage(), row.raw);
+            }
+        }
+        Map<Species, Map<State, LevelConstants>> hfs = new LinkedHashMap<>();
+        for (Row row : rows(constantsFile, constantsName, CONSTANTS_FORMAT, CONSTANTS_COLUMNS)) {
+            try {
+                Species species = Species.parse(row.f[0]);
+                State state = state(row.f[1]);
+                double a = Double.parseDouble(row.f[2]);
+                Double.parseDouble(row.f[3]);
+                boolean hasB = !row.f[4].isEmpty();
+                if (hasB != (state.twoJ() > 1)) {
+                    throw new IllegalArgumentException("B is given exactly for J > 1/2");
+                }
+                double b = hasB ? Double.parseDouble(row.f[4]) : 0;
+                if (hasB) {
+                    Double.parseDouble(row.f[5]);
+                }
+                Provenance.Kind kind = Provenance.Kind.fromId(row.f[6]);
+                LevelConstants c = new LevelConstants(species, state, row.f[2], row.f[3], row.f[4], row.f[5],
+                        HyperfineConstants.ofMegahertz(a, b, row.f[7] + " (" + kind.id() + ")"), kind, row.f[7], row.f[8]);
+                if (hfs.computeIfAbsent(species, k -> new LinkedHashMap<>()).put(state, c) != null) {
+                    throw new IllegalArgumentException("second row for " + species.notation() + " " + row.f[1]);
+                }
+            } catch (RuntimeException e) {
+                throw bad(constantsName, row.number, e.getMessage(), row.raw);
+            }
+        }
+        Map<Species, List<DLine>> frozen = new LinkedHashMap<>();
+        lines.forEach((k, v) -> frozen.put(k, List.copyOf(v)));
+        Map<Species, Map<State, LevelConstants>> frozenHfs = new LinkedHashMap<>();
+        hfs.forEach((k, v) -> frozenHfs.put(k, Collections.unmodifiableMap(new LinkedHashMap<>(v))));
+        return new AlkaliHyperfine(Collections.unmodifiableMap(frozen), Collections.unmodifiableMap(frozenHfs));
+    }
+
+    private static BigDecimal toMegahertz(BigDecimal value, String unit) {
+        return switch (unit) {
+            case "MHz" -> value;
+            case "kHz" -> value.movePointLeft(3);
+            case "GHz" -> value.movePointRight(3);
+            case "cm-1" -> value.multiply(C_MHZ_PER_CM);
+            default -> throw new IllegalArgumentException("unit " + unit);
+        };
+    }
+
+    private static State state(String label) {
+        Matcher m = LABEL.matcher(label);
+        if (!m.matches() || !m.group(3).equals(m.group(2).toUpperCase(Locale.ROOT))) {
+            throw new IllegalArgumentException("level '" + label + "' does not read as n, l and j (e.g. 5p 2P3/2)");
+        }
+        return State.of(Integer.parseInt(m.group(1)), "spdf".indexOf(m.group(2).charAt(0)), Integer.parseInt(m.group(4)));
+    }
+
+    /** @return the isotopes with D-line data, in file order; immutable */
+    public List<Species> species() {
+        return List.copyOf(dLines.keySet());
+    }
+
+    /** @return every D line, in file order; immutable */
+    public List<DLine> dLines() {
+        List<DLine> all = new ArrayList<>();
+        dLines.values().forEach(all::addAll);
+        return List.copyOf(all);
+    }
+
+    /**
+     * @param species an isotope (a mass number is needed: Rb-87 I)
+     * @return its D1 and D2 lines; empty when it has none here
+     */
+    public List<DLine> dLines(Species species) {
+        return dLines.getOrDefault(Objects.requireNonNull(species, "species"), List.of());
+    }
+
+    /**
+     * @param species an isotope
+     * @param state   a level, e.g. 5p 2P3/2
+     * @return its hyperfine constants as tabulated, if any
+     */
+    public Optional<LevelConstants> constants(Species species, State state) {
+        return Optional.ofNullable(constants.getOrDefault(species, Map.of()).get(state));
+    }
+
+    /**
+     * @param species an isotope
+     * @return the levels with hyperfine constants, in file order; immutable
+     */
+    public List<LevelConstants> constants(Species species) {
+        return List.copyOf(constants.getOrDefault(species, Map.of()).values());
+    }
+
+    /**
+     * Puts the isotope's own D-line centroids in place of the first p levels of a level list.
+     *
+     * @param species  an isotope
+     * @param measured measured levels whose ground level (energy 0, l = 0) fixes n
+     * @return the list with the n p1/2 and n p3/2 energies replaced (added where missing) by this
+     *         isotope's D-line centroids, each naming its measurement; the list unchanged when the
+     *         isotope has no D lines here
+     */
+    public List<MeasuredLevel> withResonanceLevels(Species species, List<MeasuredLevel> measured) {
+        List<DLine> lines = dLines(species);
+        Optional<MeasuredLevel> ground = measured.stream().filter(m -> m.energyPerCm() == 0 && m.state().l() == 0)
+                .findFirst();
+        if (lines.isEmpty() || ground.isEmpty()) {
+            return measured;
+        }
+        int n = ground.get().state().n();
+        List<MeasuredLevel> out = new ArrayList<>(measured);
+        for (DLine d : lines) {
+            State p = State.of(n, 1, d.twoJUpper());
+            MeasuredLevel level = new MeasuredLevel(p, d.wavenumberPerCm(), "d-lines: " + d.line() + " centroid "
+                    + d.frequencyText() + "(" + d.uncertaintyText() + ") " + d.unit() + ", " + d.source() + " ("
+                    + d.provenance().id() + ")");
+            int at = -1;
+            for (int i = 0; i < out.size(); i++) {
+                if (out.get(i).state().equals(p)) {
+                    at = i;
+                }
+            }
+            if (at >= 0) {
+                out.set(at, level);
+            } else {
+                out.add(level);
+            }
+        }
+        return List.copyOf(out);
+    }
+
+    /**
+     * The F -> F' components of a line between two levels with hyperfine constants.
+     *
+     * @param context the data context (nuclear spin, the atom's hyperfine-free levels)
+     * @param species an isotope with constants for both levels
+     * @param lower   the lower level, e.g. 5s 2S1/2
+     * @param upper   the upper level, e.g. 5p 2P3/2
+     * @return the components with frequencies (Hz) and shares of the line strength
+     * @throws ReferenceDataException when either level has no hyperfine constants here
+     */
+    public List<HyperfineComponent> components(DataContext context, Species species, State lower, State upper) {
+        Pair p = pair(context, species, lower, upper);
+        return HyperfineStructure.components(p.twoI, lower.twoJ(), p.lower, upper.twoJ(), p.upper, p.centroid);
+    }
+
+    /**
+     * The m_F-resolved components of a line in a magnetic field, from the diagonalised
+     * hyperfine-Zeeman Hamiltonians of both levels; g_J by the Lande formula (CODATA 2018 electron g
+     * factor), g_I from the nuclear moment of the context's nuclear data.
+     *
+     * @param context    the data context
+     * @param species    an isotope with constants for both levels
+     * @param lower      the lower level
+     * @param upper      the upper level
+     * @param fieldTesla the field, tesla, 0 to {@link ZeemanStructure#MAX_FIELD_TESLA}
+     * @return the components by frequency
+     * @throws ReferenceDataException when either level has no constants or the nucleus no moment
+     */
+    public List<ZeemanComponent> zeemanComponents(DataContext context, Species species, State lower, State upper,
+            double fieldTesla) {
+        Pair p = pair(context, species, lower, upper);
+        Nucleus nucleus = context.nucleus(species);
+        double gI = nucleus.magneticMoment().isPresent() && p.twoI > 0
+                ? ZeemanStructure.nuclearG(nucleus.magneticMoment().getAsDouble(), p.twoI) : 0;
+        return ZeemanStructure.components(p.twoI, lower.twoJ(), p.lower, ZeemanStructure.landeG(lower.l(), lower.twoJ()),
+                upper.twoJ(), p.upper, ZeemanStructure.landeG(upper.l(), upper.twoJ()), gI, p.centroid, fieldTesla);
+    }
+
+    private record Pair(int twoI, HyperfineConstants lower, HyperfineConstants upper, double centroid) {
+    }
+
+    private Pair pair(DataContext context, Species species, State lower, State upper) {
+        Objects.requireNonNull(context, "context");
+        LevelConstants lo = constants(species, lower).orElseThrow(() -> missing(species, lower));
+        LevelConstants up = constants(species, upper).orElseThrow(() -> missing(species, upper));
+        AlkaliAtom atom = context.alkaliAtom(species);
+        return new Pair(context.nucleus(species).twiceSpin(), lo.constants(), up.constants(),
+                atom.frequencyHz(lower, upper));
+    }
+
+    private ReferenceDataException missing(Species species, State state) {
+        return new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no hyperfine constants for "
+                + species.notation() + " " + state.label() + "; levels with constants: "
+                + String.join(", ", constants(species).stream().map(c -> c.state().label()).toList()));
+    }
+
+    private record Row(int number, String raw, String[] f) {
+    }
+
+    private static List<Row> rows(InputStream in, String name, String format, List<String> columns) {
+        List<Row> rows = new ArrayList<>();
+        Map<String, String> header = new LinkedHashMap<>();
+        try (BufferedReader reader = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
+            int number = 0;
+            boolean seenColumns = false;
+            for (String line = reader.readLine(); line != null; line = reader.readLine()) {
+                number++;
+                if (number == 1) {
+                    if (!line.equals("# " + format + " 1")) {
+                        throw bad(name, number, "first line must be '# " + format + " 1'", line);
+                    }
+                    continue;
+                }
+                if (line.isBlank()) {
+                    continue;
+                }
+                if (line.startsWith("#")) {
+                    int colon = line.indexOf(':');
+                    if (colon > 0) {
+                        header.put(line.substring(1, colon).strip(), line.substring(colon + 1).strip());
+                    }
+                    continue;
+                }
+                if (!seenColumns) {
+                    if (!line.equals(String.join(",", columns))) {
+                        throw bad(name, number, "columns must be " + String.join(",", columns), line);
+                    }
+                    seenColumns = true;
+                    continue;
+                }
+                String[] f = line.split(",", -1);
+                if (f.length != columns.size()) {
+                    throw bad(name, number, "expected " + columns.size() + " fields, got " + f.length, line);
+                }
+                rows.add(new Row(number, line, f));
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException(name + ": " + e.getMessage(), e);
+        }
+        for (String key : List.of("id", "source", "provenance")) {
+            if (header.getOrDefault(key, "").isEmpty()) {
+                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, name + ": header key '" + key
+                        + "' is missing");
+            }
+        }
+        return rows;
+    }
+
+    private static ReferenceDataException bad(String name, int number, String reason, String line) {
+        return new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, name + ":" + number + ": " + reason
+                + "\n    " + line);
+    }
+
+    private static InputStream open(String resource) {
+        InputStream in = AlkaliHyperfine.class.getResourceAsStream(resource);
+        if (in == null) {
+            throw new IllegalStateException("built-in data file missing from the jar: " + resource);
+        }
+        return in;
+    }
+}
