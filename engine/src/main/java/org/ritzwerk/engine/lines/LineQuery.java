@@ -36,8 +36,9 @@ import org.ritzwerk.quantity.SpectralQuantity;
  *     one transition) with upper n at most {@link #withMaxN maxN} (alkali atoms: both levels, and
  *     l at most {@link #withMaxL maxL}, 3 unless set). A window is needed unless a transition is
  *     given; for line lists and line sets without one, every line is taken.</li>
- * <li>Limits ({@code maxN}, {@code maxL}) leave out only lines known to exceed them; a list line
- *     without quantum numbers stays.</li>
+ * <li>Limits ({@code maxN}, {@code maxL}), when set, leave out only lines known to exceed them; a
+ *     list line without quantum numbers stays. Unset, they leave out nothing (a transition asked
+ *     for by its levels is computed whatever its n).</li>
  * <li>Selections (species, window, series, transition, strength thresholds above 0) keep only
  *     lines known to pass: a line that does not state the quantity a threshold is on is left out
  *     (a threshold of 0 keeps every line).</li>
@@ -64,7 +65,7 @@ public final class LineQuery {
     /** The default highest l of an alkali atom's levels. */
     public static final int DEFAULT_ALKALI_MAX_L = 3;
 
-    private static final LineQuery DEFAULTS = new LineQuery(List.of(), Double.NaN, Double.NaN, DEFAULT_MAX_N, -1,
+    private static final LineQuery DEFAULTS = new LineQuery(List.of(), Double.NaN, Double.NaN, -1, -1,
             null, false, false, 0, 0, 0, null, new int[0], null, null);
 
     private final List<Species> species;
@@ -104,8 +105,8 @@ public final class LineQuery {
     }
 
     /**
-     * @return every species, no window, upper n at most {@value #DEFAULT_MAX_N}, no l limit (3 for
-     *         alkali atoms), each ion's own tier, fine-structure components, no thresholds, any
+     * @return every species, no window, no n limit (computed sources: upper n at most
+     *         {@value #DEFAULT_MAX_N}), no l limit (alkali atoms computed up to l = 3), each ion's own tier, fine-structure components, no thresholds, any
      *         series, no transition
      */
     public static LineQuery defaults() {
@@ -295,7 +296,7 @@ public final class LineQuery {
             } else if (entry.atom() != null) {
                 DoubleConsumer told = f -> progress.report(entry.species(), f);
                 List<AlkaliLines.Line> computed = first != null ? List.of(AlkaliLines.between(entry.atom(), first, second))
-                        : AlkaliLines.window(entry.atom(), window()[0], window()[1], maxN,
+                        : AlkaliLines.window(entry.atom(), window()[0], window()[1], generatedMaxN(),
                                 maxL < 0 ? DEFAULT_ALKALI_MAX_L : maxL, minA, told);
                 lines = LineSet.ofAlkali(entry.atom(), computed);
             } else if (entry.list() != null) {
@@ -321,10 +322,14 @@ public final class LineQuery {
             table = generator.line(upper.n(), upper.l(), upper.twoJ(), lower.n(), lower.l(), lower.twoJ());
         } else {
             double[] window = window();
-            table = multiplets ? generator.multiplets(maxN, window[0], window[1], told)
-                    : generator.components(maxN, window[0], window[1], told);
+            table = multiplets ? generator.multiplets(generatedMaxN(), window[0], window[1], told)
+                    : generator.components(generatedMaxN(), window[0], window[1], told);
         }
         return LineSet.ofHydrogenLike(ion, model, table, components ? generator : null);
+    }
+
+    private int generatedMaxN() {
+        return maxN < 0 ? DEFAULT_MAX_N : maxN;
     }
 
     private double[] window() {
@@ -343,7 +348,7 @@ public final class LineQuery {
         if (!Double.isNaN(lowHz) && !(hz >= lowHz && hz <= highHz)) {
             return false;
         }
-        if (set.upperN(i).orElse(0) > maxN || maxL >= 0 && (set.upperL(i).orElse(0) > maxL
+        if (maxN >= 0 && set.upperN(i).orElse(0) > maxN || maxL >= 0 && (set.upperL(i).orElse(0) > maxL
                 || set.lowerL(i).orElse(0) > maxL)) {
             return false;
         }
