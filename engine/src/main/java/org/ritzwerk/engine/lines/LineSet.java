@@ -180,6 +180,17 @@ public final class LineSet {
      * @return their lines one after the other, in the order given
      */
     public static LineSet concat(List<LineSet> sets) {
+        LineSet only = null;
+        int nonEmpty = 0;
+        for (LineSet set : sets) {
+            if (!set.isEmpty()) {
+                only = set;
+                nonEmpty++;
+            }
+        }
+        if (nonEmpty <= 1) {
+            return only == null ? EMPTY : only;     // immutable: nothing to copy
+        }
         Builder b = new Builder();
         for (LineSet set : sets) {
             for (int i = 0; i < set.size(); i++) {
@@ -554,13 +565,14 @@ public final class LineSet {
      * @return the kept lines, in this set's order
      */
     public LineSet filter(IntPredicate keep) {
-        Builder b = new Builder();
+        int[] kept = new int[size()];
+        int n = 0;
         for (int i = 0; i < size(); i++) {
             if (keep.test(i)) {
-                b.copy(this, i);
+                kept[n++] = i;
             }
         }
-        return b.build();
+        return n == size() ? this : select(Arrays.copyOf(kept, n));
     }
 
     /**
@@ -580,6 +592,33 @@ public final class LineSet {
      *         keep their order (a stable sort)
      */
     public LineSet sortedByFallingFrequency() {
+        boolean sorted = true;
+        for (int i = 1; i < size() && sorted; i++) {
+            sorted = frequency[i - 1] >= frequency[i];
+        }
+        if (sorted) {
+            return this;
+        }
+        boolean rising = true;
+        for (int i = 1; i < size() && rising; i++) {
+            rising = frequency[i - 1] <= frequency[i];
+        }
+        if (rising) {       // e.g. a one-electron line table: walk its groups of equal frequency down
+            int[] indices = new int[size()];
+            int k = 0;
+            int end = size();
+            while (end > 0) {
+                int start = end - 1;
+                while (start > 0 && frequency[start - 1] == frequency[end - 1]) {
+                    start--;
+                }
+                for (int i = start; i < end; i++) {
+                    indices[k++] = i;
+                }
+                end = start;
+            }
+            return select(indices);
+        }
         Integer[] order = new Integer[size()];
         for (int i = 0; i < order.length; i++) {
             order[i] = i;
@@ -642,6 +681,9 @@ public final class LineSet {
         private boolean[] multiplet = new boolean[16];
         private Builder components;
         private int[] componentStart;
+        /** The previous line's species and source, to skip the map lookups for runs of equal ones. */
+        private Species lastSpecies;
+        private Source lastSource;
 
         private Builder() {
         }
@@ -697,14 +739,16 @@ public final class LineSet {
                         + hertz + " Hz disagree (their product must be c)");
             }
             grow();
-            species[size] = speciesIndex.computeIfAbsent(s, k -> {
+            species[size] = s == lastSpecies ? species[size - 1] : speciesIndex.computeIfAbsent(s, k -> {
                 speciesList.add(k);
                 return speciesList.size() - 1;
             });
-            source[size] = sourceIndex.computeIfAbsent(from, k -> {
+            source[size] = from == lastSource ? source[size - 1] : sourceIndex.computeIfAbsent(from, k -> {
                 sourceList.add(k);
                 return sourceList.size() - 1;
             });
+            lastSpecies = s;
+            lastSource = from;
             this.name[size] = name;
             upperLabel[size] = null;
             lowerLabel[size] = null;
