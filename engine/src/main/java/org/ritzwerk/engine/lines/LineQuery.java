@@ -372,6 +372,19 @@ public final class LineQuery {
         return true;
     }
 
+    @Override
+    public String toString() {
+        return "LineQuery[species " + (species.isEmpty() ? "all" : species.stream().map(Species::notation).toList())
+                + (Double.isNaN(lowHz) ? ", no window" : ", " + lowHz + " to " + highHz + " Hz")
+                + (maxN < 0 ? "" : ", n <= " + maxN) + (maxL < 0 ? "" : ", l <= " + maxL)
+                + (tier == null ? "" : ", tier " + tier.id()) + (multiplets ? ", multiplets" : "")
+                + (components ? " with components" : "") + (minA > 0 ? ", A >= " + minA + " s^-1" : "")
+                + (minF > 0 ? ", f >= " + minF : "") + (minIntensity > 0 ? ", intensity >= " + minIntensity : "")
+                + (weakest == null ? "" : ", class " + weakest.id() + " or stronger")
+                + (lowerN.length == 0 ? "" : ", lower n " + Arrays.toString(lowerN))
+                + (first == null ? "" : ", transition " + first.label() + " - " + second.label()) + "]";
+    }
+
     private static double threshold(String what, double value) {
         if (!(value >= 0) || Double.isInfinite(value)) {
             throw new IllegalArgumentException("the smallest " + what + " must be finite and not negative, got " + value);

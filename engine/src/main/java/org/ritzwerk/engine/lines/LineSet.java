@@ -58,7 +58,8 @@ import org.ritzwerk.quantity.Wavelength;
  * no object per line either. A multiplet whose components were not asked for has an empty set.
  *
  * <p>Quantities a source does not give are absent: {@code OptionalDouble}, {@code OptionalInt},
- * {@code Optional}; never NaN or -1 in the public accessors. Immutable and thread-safe; built by
+ * {@code Optional}; never NaN or -1 in the public accessors. Immutable and thread-safe; equality
+ * is exact (every column, in order); built by
  * {@link #builder()}, the adapters of {@link LineSources}, or {@link LineQuery}.
  */
 public final class LineSet {
@@ -225,10 +226,14 @@ public final class LineSet {
             boolean blend = table.upperL(i) < 0;
             double upper = blend ? model.energy(n, 0, 1) : model.energy(n, table.upperL(i), table.upperTwoJ(i));
             b.addFrequency(species, from, table.lineName(i), table.frequency(i))
-                    .labels(table.upperLabel(i), table.lowerLabel(i))
-                    .upper(n, table.upperL(i), table.upperTwoJ(i))
-                    .lower(table.lowerN(i), table.lowerL(i), table.lowerTwoJ(i))
-                    .einsteinA(table.einsteinA(i))
+                    .labels(table.upperLabel(i), table.lowerLabel(i));
+            if (blend) {
+                b.upperShell(n).lowerShell(table.lowerN(i));
+            } else {
+                b.upper(State.of(n, table.upperL(i), table.upperTwoJ(i)))
+                        .lower(State.of(table.lowerN(i), table.lowerL(i), table.lowerTwoJ(i)));
+            }
+            b.einsteinA(table.einsteinA(i))
                     .oscillatorStrength(table.oscillatorStrength(i))
                     .lineStrength(table.lineStrength(i) / (ATOMIC_DIPOLE * ATOMIC_DIPOLE))
                     .weights(table.upperWeight(i), table.lowerWeight(i))
@@ -260,8 +265,8 @@ public final class LineSet {
             b.addFrequency(atom.species(), from, u.label().replaceAll("[0-9]", "").charAt(0) + "-"
                     + l.label().replaceAll("[0-9]", "").charAt(0), line.frequency())
                     .labels(u.notation(), l.notation())
-                    .upper(u.n(), u.l(), u.twoJ())
-                    .lower(l.n(), l.l(), l.twoJ())
+                    .upper(u)
+                    .lower(l)
                     .einsteinA(line.einsteinA())
                     .oscillatorStrength(line.oscillatorStrength())
                     .lineStrength(line.lineStrength())
@@ -314,10 +319,10 @@ public final class LineSet {
             State upper = parsed(list.upper(i));
             State lower = parsed(list.lower(i));
             if (upper != null) {
-                b.upper(upper.n(), upper.l(), upper.twoJ());
+                b.upper(upper);
             }
             if (lower != null) {
-                b.lower(lower.n(), lower.l(), lower.twoJ());
+                b.lower(lower);
             }
         }
         return b.build();
@@ -645,6 +650,34 @@ public final class LineSet {
         return Double.isNaN(value) ? OptionalDouble.empty() : OptionalDouble.of(value);
     }
 
+    /** Exact: the same lines, in the same order, with every column equal (doubles bit for bit). */
+    @Override
+    public boolean equals(Object o) {
+        if (this == o) {
+            return true;
+        }
+        if (!(o instanceof LineSet)) {
+            return false;
+        }
+        LineSet t = (LineSet) o;
+        return speciesList.equals(t.speciesList) && sourceList.equals(t.sourceList) && Arrays.equals(species, t.species)
+                && Arrays.equals(source, t.source) && Arrays.equals(name, t.name)
+                && Arrays.equals(upperLabel, t.upperLabel) && Arrays.equals(lowerLabel, t.lowerLabel)
+                && Arrays.equals(levels, t.levels) && Arrays.equals(vacuum, t.vacuum)
+                && Arrays.equals(frequency, t.frequency) && Arrays.equals(sigma, t.sigma)
+                && Arrays.equals(einsteinA, t.einsteinA) && Arrays.equals(oscillatorStrength, t.oscillatorStrength)
+                && Arrays.equals(lineStrength, t.lineStrength) && Arrays.equals(upperEnergy, t.upperEnergy)
+                && Arrays.equals(intensity, t.intensity) && Arrays.equals(upperWeight, t.upperWeight)
+                && Arrays.equals(lowerWeight, t.lowerWeight) && Arrays.equals(strengthClass, t.strengthClass)
+                && Arrays.equals(multiplet, t.multiplet) && Objects.equals(components, t.components)
+                && Arrays.equals(componentStart, t.componentStart);
+    }
+
+    @Override
+    public int hashCode() {
+        return Objects.hash(speciesList, Arrays.hashCode(frequency), Arrays.hashCode(name));
+    }
+
     @Override
     public String toString() {
         return "LineSet[" + size() + " lines of " + speciesList.stream().map(Species::notation).toList() + "]";
@@ -784,32 +817,37 @@ public final class LineSet {
             return this;
         }
 
-        /**
-         * @param n    upper n, at least 1
-         * @param l    upper l, 0 to n - 1, or -1 when not known (a multiplet)
-         * @param twoJ twice the upper j, or -1 when not known
-         * @return this builder
-         */
-        public Builder upper(int n, int l, int twoJ) {
-            return level(0, n, l, twoJ);
+        /** @param level the upper level n l j @return this builder */
+        public Builder upper(State level) {
+            return level(0, level.n(), level.l(), level.twoJ());
+        }
+
+        /** @param level the lower level n l j @return this builder */
+        public Builder lower(State level) {
+            return level(3, level.n(), level.l(), level.twoJ());
         }
 
         /**
-         * @param n    lower n, at least 1
-         * @param l    lower l, 0 to n - 1, or -1 when not known
-         * @param twoJ twice the lower j, or -1 when not known
+         * @param n the upper shell's n, at least 1, where l and j are not known (a multiplet)
          * @return this builder
          */
-        public Builder lower(int n, int l, int twoJ) {
-            return level(3, n, l, twoJ);
+        public Builder upperShell(int n) {
+            return level(0, n, -1, -1);
+        }
+
+        /**
+         * @param n the lower shell's n, at least 1, where l and j are not known
+         * @return this builder
+         */
+        public Builder lowerShell(int n) {
+            return level(3, n, -1, -1);
         }
 
         private Builder level(int offset, int n, int l, int twoJ) {
             int i = last();
-            String which = offset == 0 ? "upper" : "lower";
-            if (n < 1 || l < -1 || l >= n || twoJ < -1 || l >= 0 && twoJ >= 0 && Math.abs(twoJ - 2 * l) != 1) {
-                throw new IllegalArgumentException("line " + i + ": impossible " + which + " level n = " + n + ", l = "
-                        + l + ", 2j = " + twoJ);
+            if (n < 1 || l >= n) {
+                throw new IllegalArgumentException("line " + i + ": impossible " + (offset == 0 ? "upper" : "lower")
+                        + " level n = " + n + ", l = " + l);
             }
             levels[6 * i + offset] = n;
             levels[6 * i + offset + 1] = l;

@@ -280,8 +280,8 @@ class LineQueryTest {
         assertEquals("line 0: vacuum wavelength (m) must be finite and positive, got NaN", nan.getMessage());
         b.addFrequency(Sources.H, LineSet.Source.of("mine"), "mine", 1e15);
         assertThrows(IllegalArgumentException.class, () -> b.einsteinA(-1));
-        assertThrows(IllegalArgumentException.class, () -> b.upper(2, 2, 5));
-        assertThrows(IllegalArgumentException.class, () -> b.upper(3, 1, 5));
+        assertThrows(IllegalArgumentException.class, () -> b.upperShell(0));
+        assertThrows(IllegalArgumentException.class, () -> b.lowerShell(-1));
         assertThrows(IllegalArgumentException.class,
                 () -> b.add(Sources.H, LineSet.Source.of("x"), "x", 500e-9, 1e15));
         LineSet set = b.build();
@@ -297,5 +297,25 @@ class LineQueryTest {
         assertFalse(set.isMultiplet(0));
         assertTrue(set.components(0).isEmpty());
         assertEquals(Optional.empty(), set.source(0).dataSet());
+    }
+
+    @Test
+    void equalityIsExactAndCopiesKeepIt() {
+        LineSet neon = LineSet.of(Sources.neonInAir());
+        assertEquals(neon, LineSet.of(Sources.neonInAir()));
+        assertEquals(neon.hashCode(), LineSet.of(Sources.neonInAir()).hashCode());
+        assertEquals(neon, neon.select(new int[] {0, 1, 2}));
+        assertEquals(neon, LineSet.concat(List.of(LineSet.empty(), neon)));
+        assertFalse(neon.equals(neon.select(new int[] {1, 0, 2})));
+        assertFalse(neon.equals(neon.filter(i -> i > 0)));
+        LineSet alpha = LineQuery.defaults().withWindowHz(4.5e14, 4.6e14).withMaxN(3).withMultiplets(true)
+                .withMultipletComponents(true)
+                .run(LineSources.none().withHydrogenLike(Sources.H, Sources.hydrogen(Tier.QED)));
+        assertEquals(alpha, alpha.select(new int[] {0}));
+        assertFalse(alpha.equals(LineQuery.defaults().withWindowHz(4.5e14, 4.6e14).withMaxN(3).withMultiplets(true)
+                .run(LineSources.none().withHydrogenLike(Sources.H, Sources.hydrogen(Tier.QED)))),
+                "components are part of the set");
+        assertEquals("LineQuery[species all, 4.5E14 to 4.6E14 Hz, n <= 3, multiplets]",
+                LineQuery.defaults().withWindowHz(4.5e14, 4.6e14).withMaxN(3).withMultiplets(true).toString());
     }
 }
