@@ -26,7 +26,10 @@ import org.ritzwerk.medium.Medium;
  */
 class LineSetConsumersTest {
 
-    /** Ne-20: atomic mass 19.9924401762 u (AME2020), spin 0. */
+    /**
+     * Ne-20: atomic mass 19.9924401762 u (AME2020, from memory), spin 0. Both paths compared here
+     * take the same nucleus, so its digits do not enter the checks.
+     */
     private static final Nucleus NEON = new Nucleus(10, 20, Nucleus.nuclearMassKg(10, 19.9924401762), 0,
             OptionalDouble.empty(), OptionalDouble.empty(), "AME2020");
     private static final Function<Species, Nucleus> NUCLEI = s -> NEON;
