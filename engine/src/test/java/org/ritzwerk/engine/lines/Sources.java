@@ -29,7 +29,11 @@ final class Sources {
     /** Proton: m_p, spin 1/2, mu_p = 2.79284734463 mu_N, r_p = 0.8414 fm (CODATA 2018). */
     static final Nucleus PROTON = new Nucleus(1, 1, PhysicalConstants.PROTON_MASS.value(), 1,
             OptionalDouble.of(2.79284734463), OptionalDouble.of(0.8414e-15), "CODATA 2018");
-    /** He-4: atomic mass 4.00260325413 u (AME2020), spin 0, r = 1.6755 fm (Angeli and Marinova 2013). */
+    /**
+     * He-4: atomic mass 4.00260325413 u (AME2020), spin 0, r = 1.6755 fm (Angeli and Marinova 2013),
+     * both from memory as in the engine's UserGuideTest; the tests compare two paths over the same
+     * model, so these digits do not enter a check.
+     */
     static final Nucleus HELIUM4 = new Nucleus(2, 4, Nucleus.nuclearMassKg(2, 4.00260325413), 0,
             OptionalDouble.empty(), OptionalDouble.of(1.6755e-15), "AME2020; Angeli and Marinova 2013");
 
@@ -95,7 +99,10 @@ final class Sources {
                 .build();
     }
 
-    /** Two lines given in cm-1 (vacuum wavenumbers), one labelled by states n l j. */
+    /**
+     * Two lines given in cm-1 (vacuum wavenumbers), one labelled by states n l j: invented for the
+     * conversion checks (the first near lithium's 2p - 2s line, 14904 cm-1, from memory).
+     */
     static LineList wavenumberList() {
         Species li = Species.parse("Li I");
         DataSetInfo info = new DataSetInfo("test-li", DataKind.LINES, "test lithium", "1",
