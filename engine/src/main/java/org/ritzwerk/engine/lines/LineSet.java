@@ -468,21 +468,6 @@ public final class LineSet {
         return medium.fromVacuum(vacuum[i]);
     }
 
-    /**
-     * @param medium vacuum, or air under a named model
-     * @return whether every line lies inside the medium's validity range (always true for vacuum)
-     */
-    public boolean allConvertibleTo(Medium medium) {
-        for (double v : vacuum) {
-            try {
-                medium.fromVacuum(v);
-            } catch (MediumException e) {
-                return false;
-            }
-        }
-        return true;
-    }
-
     /** @param i line index @return the vacuum frequency in Hz */
     public double frequencyHz(int i) {
         return frequency[i];
