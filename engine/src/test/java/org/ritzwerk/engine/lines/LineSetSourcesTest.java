@@ -200,6 +200,10 @@ class LineSetSourcesTest {
             assertEquals(Optional.ofNullable(neon.strength(i)), set.strengthClass(i));
             assertEquals(Math.abs(vacuum[i] / neon.position(i)) * neon.uncertainty(i).getAsDouble(),
                     set.vacuumWavelengthUncertaintyMetres(i).getAsDouble(), 0.0);
+            assertEquals(vacuum[i], set.vacuumWavelength(i).inMetres(), 0.0);
+            assertEquals(set.vacuumWavelengthUncertaintyMetres(i).getAsDouble(),
+                    set.vacuumWavelength(i).uncertaintyIn(Unit.METRE).getAsDouble(), 1e-30);
+            assertEquals(set.frequencyHz(i), set.frequency(i).inHertz(), 0.0);
             assertEquals("line-list", set.source(i).model());
             assertEquals(neon.info(), set.source(i).dataSet().get());
         }
