@@ -3,8 +3,10 @@ package org.ritzwerk.cli;
 import java.io.PrintWriter;
 import java.util.List;
 import org.ritzwerk.atom.State;
-import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
+import org.ritzwerk.engine.lines.LineQuery;
+import org.ritzwerk.engine.lines.LineSet;
+import org.ritzwerk.engine.lines.LineSources;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
@@ -88,14 +90,14 @@ final class AlkaliTables {
             throw new OptionException("--transition: " + a.notation() + " and " + b.notation()
                     + " are not joined by an electric-dipole line (needs Delta l = 1, Delta j <= 1)");
         }
-        AlkaliLines.Line line = AlkaliLines.between(atom, a, b);
-        State upper = line.upper();
-        State lower = line.lower();
-        double vacuum = PhysicalConstants.C / line.frequency();
+        LineSet line = LineQuery.defaults().withTransition(a, b).run(LineSources.none().withAlkali(atom));
+        State upper = line.upperState(0).orElseThrow();
+        State lower = line.lowerState(0).orElseThrow();
+        double vacuum = line.vacuumWavelengthMetres(0);
         boolean lowerIsGround = lower.equals(atom.groundState());
-        Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequency(), vacuum * 1e9,
-            air(vacuum) * 1e9, line.frequency() / PhysicalConstants.C / 100, atom.reducedDipole(upper, lower),
-            line.einsteinA(), line.oscillatorStrength(), atom.radiativeLifetime(upper),
+        Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequencyHz(0), vacuum * 1e9,
+            air(vacuum) * 1e9, line.wavenumberPerCm(0), atom.reducedDipole(upper, lower),
+            line.einsteinA(0).getAsDouble(), line.oscillatorStrength(0).getAsDouble(), atom.radiativeLifetime(upper),
             atom.effectiveLifetime(upper, temperature),
             lowerIsGround ? null : atom.radiativeLifetime(lower),
             lowerIsGround ? null : atom.effectiveLifetime(lower, temperature), temperature};

@@ -1,16 +1,14 @@
 package org.ritzwerk.cli;
 
-import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
-import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
-import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.lines.LineQuery;
+import org.ritzwerk.engine.lines.LineSet;
+import org.ritzwerk.engine.lines.LineSources;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.AlkaliLines;
-import org.ritzwerk.medium.Medium;
-import org.ritzwerk.medium.MediumException;
 import org.ritzwerk.quantity.QuantityText;
 import org.ritzwerk.quantity.SpectralQuantity;
 import picocli.CommandLine.Command;
@@ -104,67 +102,6 @@ final class LinesCommand implements Callable<Integer> {
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
-    /**
-     * The lines of one species, highest frequency first (equal frequencies in the order the
-     * library gives them): a one-electron ion's line table or an alkali atom's lines.
-     */
-    private static final class Source {
-        final String species;
-        final String model;
-        final LineTable table;
-        final int[] order;
-        final List<AlkaliLines.Line> alkali;
-        int next;
-
-        Source(String species, String model, LineTable table, double minA) {
-            this.species = species;
-            this.model = model;
-            this.table = table;
-            this.alkali = null;
-            this.order = descending(table, minA);
-        }
-
-        Source(String species, List<AlkaliLines.Line> alkali) {
-            this.species = species;
-            this.model = "quantum-defect";
-            this.table = null;
-            this.order = null;
-            this.alkali = alkali;
-        }
-
-        boolean hasNext() {
-            return next < (alkali != null ? alkali.size() : order.length);
-        }
-
-        double frequency() {
-            return alkali != null ? alkali.get(next).frequency() : table.frequency(order[next]);
-        }
-
-        /** The table's lines with A >= minA by falling frequency; ties keep the table's order. */
-        private static int[] descending(LineTable table, double minA) {
-            int kept = 0;
-            for (int i = 0; i < table.size(); i++) {
-                kept += table.einsteinA(i) >= minA ? 1 : 0;
-            }
-            int[] order = new int[kept];
-            int k = 0;
-            int end = table.size();
-            while (end > 0) {       // the table rises in frequency: walk groups of equal frequency down
-                int start = end - 1;
-                while (start > 0 && table.frequency(start - 1) == table.frequency(end - 1)) {
-                    start--;
-                }
-                for (int i = start; i < end; i++) {
-                    if (table.einsteinA(i) >= minA) {
-                        order[k++] = i;
-                    }
-                }
-                end = start;
-            }
-            return order;
-        }
-    }
-
     @Override
     public Integer call() {
         if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
@@ -205,21 +142,18 @@ final class LinesCommand implements Callable<Integer> {
         if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {
             throw new OptionException("--from and --to are the same position; give a window");
         }
-        double lowHz = Math.min(one.toFrequency().inHertz(), two.toFrequency().inHertz());
-        double highHz = Math.max(one.toFrequency().inHertz(), two.toFrequency().inHertz());
-        List<Source> sources = new ArrayList<>();
+        LineQuery query = LineQuery.defaults().withWindow(one, two).withMaxN(nMax).withMinEinsteinA(minA);
+        LineSources ionSources = LineSources.none();
         for (Ions.Ion ion : atoms.ions()) {
-            HydrogenLikeLines generator = HydrogenLikeLines.of(ion.model());
-            Progress progress = Progress.on(spec.commandLine().getErr(), "lines: " + ion.species().notation());
-            LineTable table = multiplets ? generator.multiplets(nMax, lowHz, highHz, progress)
-                    : generator.components(nMax, lowHz, highHz, progress);
-            sources.add(new Source(ion.species().notation(), ion.model().tier().id(), table, minA));
+            ionSources = ionSources.withHydrogenLike(ion.species(), ion.model());
         }
+        LineSources alkaliSources = LineSources.none();
         for (AlkaliAtom atom : atoms.alkalis()) {
-            Progress progress = Progress.on(spec.commandLine().getErr(), "lines: " + atom.species().notation());
-            sources.add(new Source(atom.species().notation(),
-                    AlkaliLines.window(atom, lowHz, highHz, nMax, lMax, minA, progress)));
+            alkaliSources = alkaliSources.withAlkali(atom);
         }
+        LineQuery.Progress progress = progress();
+        LineSet lines = LineSet.concat(List.of(query.withMultiplets(multiplets).run(ionSources, progress),
+                query.withMaxL(lMax).run(alkaliSources, progress))).sortedByFallingFrequency();
         Table output = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),
@@ -235,39 +169,14 @@ final class LinesCommand implements Callable<Integer> {
                 Table.Column.number("oscillator_strength", "f", "%.4e"),
                 Table.Column.number("line_strength_au", "S (e a0)^2", "%.4e"),
                 Table.Column.text("model", "model")), spec.commandLine().getOut(), format);
-        double atomicDipole = PhysicalConstants.E * PhysicalConstants.FINE_STRUCTURE.value()
-                / (4 * Math.PI * PhysicalConstants.RYDBERG.value());
-        while (true) {          // merge the species' lines, highest frequency first
-            Source line = null;
-            for (Source source : sources) {
-                if (source.hasNext() && (line == null || source.frequency() > line.frequency())) {
-                    line = source;
-                }
-            }
-            if (line == null) {
-                break;
-            }
-            int index = line.next++;
-            if (line.alkali != null) {
-                AlkaliLines.Line a = line.alkali.get(index);
-                double vacuumMetres = PhysicalConstants.C / a.frequency();
-                double airMetres = airWavelength(vacuumMetres);
-                output.add(line.species, a.upper().notation(), a.lower().notation(),
-                        a.upper().label().replaceAll("[0-9]", "").charAt(0) + "-"
-                                + a.lower().label().replaceAll("[0-9]", "").charAt(0),
-                        (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
-                        a.frequency() / PhysicalConstants.C / 100, a.frequency(), a.einsteinA(),
-                        a.oscillatorStrength(), a.lineStrength(), line.model);
-                continue;
-            }
-            LineTable t = line.table;
-            int i = line.order[index];
-            double vacuumMetres = PhysicalConstants.C / t.frequency(i);
-            double airMetres = airWavelength(vacuumMetres);
-            output.add(line.species, t.upperLabel(i), t.lowerLabel(i), t.lineName(i),
-                    (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
-                    t.frequency(i) / PhysicalConstants.C / 100, t.frequency(i), t.einsteinA(i),
-                    t.oscillatorStrength(i), t.lineStrength(i) / (atomicDipole * atomicDipole), line.model);
+        for (int i = 0; i < lines.size(); i++) {
+            double vacuumMetres = lines.vacuumWavelengthMetres(i);
+            double airMetres = AlkaliTables.air(vacuumMetres);
+            output.add(lines.species(i).notation(), lines.upperLabel(i).orElse(null), lines.lowerLabel(i).orElse(null),
+                    lines.name(i), (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
+                    lines.wavenumberPerCm(i), lines.frequencyHz(i), lines.einsteinA(i).getAsDouble(),
+                    lines.oscillatorStrength(i).getAsDouble(), lines.lineStrengthAtomicUnits(i).getAsDouble(),
+                    lines.source(i).model());
         }
         output.finish();
         return 0;
@@ -322,12 +231,16 @@ final class LinesCommand implements Callable<Integer> {
         return 0;
     }
 
-    /** The standard-air wavelength in metres, NaN (printed as null) outside the model's range. */
-    private static double airWavelength(double vacuumMetres) {
-        try {
-            return Medium.air().fromVacuum(vacuumMetres);
-        } catch (MediumException e) {
-            return Double.NaN;
-        }
+    /** A progress line per species, on a terminal. */
+    private LineQuery.Progress progress() {
+        Species[] current = {null};
+        Progress[] shown = {null};
+        return (species, fraction) -> {
+            if (!species.equals(current[0])) {
+                current[0] = species;
+                shown[0] = Progress.on(spec.commandLine().getErr(), "lines: " + species.notation());
+            }
+            shown[0].accept(fraction);
+        };
     }
 }

@@ -4,10 +4,13 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.StrengthClass;
 import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.medium.Medium;
+import org.ritzwerk.medium.MediumException;
 import org.ritzwerk.quantity.Unit;
 
 /**
@@ -83,6 +86,58 @@ public final class LampSet {
         }
         if (total == 0) {
             throw new IllegalArgumentException("the lamp's line lists " + ids + " hold no lines");
+        }
+        return new LampSet(LampLines.of(nm, intensity, allSigmas ? sigma : null, medium), List.copyOf(labels),
+                species, List.copyOf(ids), strength);
+    }
+
+    /**
+     * The lamp lines of a line set (for instance a {@link org.ritzwerk.engine.lines.LineQuery}
+     * over lamp lists): vacuum wavelengths converted to nm in {@code medium}, uncertainties scaled
+     * by the medium's slope d lambda_medium / d lambda_vac (first order) where every line has one,
+     * relative intensities (1 where none is given), strength classes, and labels
+     * {@code "<species> <name>"} ({@code Ne I 640.2248 nm air} for a list line). The set ids are
+     * the lines' data set ids, else their source model labels, in order of first appearance.
+     *
+     * @param lines  the lines, at least one
+     * @param medium the medium the calibration's wavelengths are to be in
+     * @return the lamp set, in the set's order
+     * @throws IllegalArgumentException when the set is empty or a line lies outside the medium's
+     *         range (naming the line)
+     */
+    public static LampSet of(LineSet lines, Medium medium) {
+        Objects.requireNonNull(lines, "lines");
+        Objects.requireNonNull(medium, "medium");
+        int n = lines.size();
+        if (n == 0) {
+            throw new IllegalArgumentException("the lamp's line set holds no lines");
+        }
+        double[] nm = new double[n];
+        double[] intensity = new double[n];
+        double[] sigma = new double[n];
+        boolean allSigmas = true;
+        List<String> labels = new ArrayList<>(n);
+        Species[] species = new Species[n];
+        StrengthClass[] strength = new StrengthClass[n];
+        List<String> ids = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            double vacuum = lines.vacuumWavelengthMetres(i);
+            labels.add(lines.species(i).notation() + " " + lines.name(i));
+            try {
+                nm[i] = medium.fromVacuum(vacuum) * 1e9;
+            } catch (MediumException e) {
+                throw new IllegalArgumentException("lamp line " + labels.get(i) + ": " + e.getMessage(), e);
+            }
+            intensity[i] = lines.relativeIntensity(i).orElse(1);
+            allSigmas &= lines.vacuumWavelengthUncertaintyMetres(i).isPresent();
+            sigma[i] = lines.vacuumWavelengthUncertaintyMetres(i).orElse(0) * medium.slopeFromVacuum(vacuum) * 1e9;
+            species[i] = lines.species(i);
+            strength[i] = lines.strengthClass(i).orElse(null);
+            LineSet.Source source = lines.source(i);
+            String id = source.dataSet().map(DataSetInfo::id).orElse(source.model());
+            if (!ids.contains(id)) {
+                ids.add(id);
+            }
         }
         return new LampSet(LampLines.of(nm, intensity, allSigmas ? sigma : null, medium), List.copyOf(labels),
                 species, List.copyOf(ids), strength);

@@ -188,6 +188,24 @@ public final class HydrogenLikeLines {
     }
 
     /**
+     * The fine-structure components of one n -&gt; n' multiplet, wherever they fall: what
+     * {@link #multiplets(int, double, double)} blends into one line.
+     *
+     * @param upperN upper principal quantum number, 2 to {@link #MAX_N}
+     * @param lowerN lower principal quantum number, 1 to upperN - 1
+     * @return every E1 component from shell upperN to shell lowerN, by frequency
+     */
+    public LineTable multipletComponents(int upperN, int lowerN) {
+        if (upperN > MAX_N || lowerN < 1 || lowerN >= upperN) {
+            throw new IllegalArgumentException("a multiplet needs 1 <= lower n < upper n <= " + MAX_N + ", got "
+                    + upperN + " -> " + lowerN);
+        }
+        LineTable.Builder parts = new LineTable.Builder();
+        addComponents(upperN, lowerN, 0, Double.POSITIVE_INFINITY, parts);
+        return LineTable.sorted(parts, model.nucleus().z());
+    }
+
+    /**
      * @param n    principal quantum number
      * @param l    orbital quantum number
      * @param twoJ twice j

@@ -15,6 +15,7 @@ import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.medium.Medium;
@@ -29,7 +30,8 @@ import org.ritzwerk.quantity.Unit;
  *   <li>one-electron ions: g_upper A, times exp(-(E_upper - E_ground) / kT) when an excitation
  *       temperature is given (Boltzmann populations, common practice);</li>
  *   <li>alkali atoms: (2 j_upper + 1) A;</li>
- *   <li>line lists: the list's relative intensity, else its Einstein A, else unknown.</li>
+ *   <li>line lists: the list's relative intensity, else its Einstein A, else unknown;</li>
+ *   <li>line sets ({@link Builder#lineSet}): as described there.</li>
  * </ul>
  * For the multiplets of one-electron ions the physics a plasma estimate needs (upper energy,
  * weight, A, frequency) is kept and found by {@link #multiplet(LineCatalog, int)}.
@@ -172,6 +174,26 @@ public final class Candidates {
         }
 
         /**
+         * Any line set ({@link LineSet}, e.g. a {@link org.ritzwerk.engine.lines.LineQuery}'s
+         * result): its lines whose vacuum wavelength lies in the window are candidates. A
+         * multiplet enters as a blend spanning its components' vacuum wavelengths (0 when it has
+         * none). Expected strength: the relative intensity where given, else g_upper A (or A
+         * alone without weights), else unknown; times exp(-E_upper / kT) where an excitation
+         * temperature is set and the upper energy is known. Label: a multiplet's name, else
+         * {@code "upper - lower"} where both labels are known, else the species and name.
+         * Multiplets from a line set carry no {@link Multiplet} physics (use
+         * {@link #hydrogenLike} for the plasma estimate).
+         *
+         * @param lines the lines
+         * @return this builder
+         */
+        public Builder lineSet(LineSet lines) {
+            Objects.requireNonNull(lines, "lines");
+            sources.add(b -> addLineSet(b, lines));
+            return this;
+        }
+
+        /**
          * @return the candidates
          * @throws IdentificationException when no candidate line lies in the window
          */
@@ -233,6 +255,41 @@ public final class Candidates {
                     // them where the instrument half-resolves them, within their spread.
                     double[] span = spreads.get(pair(n, table.lowerN(i)));
                     b.addBlend(species, vacuum, 0, strength, label, span == null ? 0 : span[1] - span[0]);
+                }
+                count++;
+            }
+        }
+
+        private void addLineSet(LineCatalog.Builder b, LineSet lines) {
+            for (int i = 0; i < lines.size(); i++) {
+                double vacuum = lines.vacuumWavelengthMetres(i);
+                if (vacuum < lo || vacuum > hi) {
+                    continue;
+                }
+                double sigma = lines.vacuumWavelengthUncertaintyMetres(i).orElse(0);
+                double strength = lines.relativeIntensity(i).orElse(Double.NaN);
+                if (Double.isNaN(strength) && lines.einsteinA(i).isPresent()) {
+                    strength = lines.upperWeight(i).orElse(1) * lines.einsteinA(i).getAsDouble();
+                }
+                if (!Double.isNaN(excitationTemperature) && lines.upperEnergyJoules(i).isPresent()) {
+                    strength *= Math.exp(-lines.upperEnergyJoules(i).getAsDouble()
+                            / (PhysicalConstants.K * excitationTemperature));
+                }
+                String label = lines.isMultiplet(i) ? lines.name(i)
+                        : lines.upperLabel(i).isPresent() && lines.lowerLabel(i).isPresent()
+                        ? lines.upperLabel(i).get() + " - " + lines.lowerLabel(i).get()
+                        : lines.species(i).notation() + " " + lines.name(i);
+                if (lines.isMultiplet(i)) {
+                    LineSet parts = lines.components(i);
+                    double shortest = Double.POSITIVE_INFINITY;
+                    double longest = Double.NEGATIVE_INFINITY;
+                    for (int k = 0; k < parts.size(); k++) {
+                        shortest = Math.min(shortest, parts.vacuumWavelengthMetres(k));
+                        longest = Math.max(longest, parts.vacuumWavelengthMetres(k));
+                    }
+                    b.addBlend(lines.species(i), vacuum, sigma, strength, label, parts.isEmpty() ? 0 : longest - shortest);
+                } else {
+                    b.add(lines.species(i), vacuum, sigma, strength, label);
                 }
                 count++;
             }

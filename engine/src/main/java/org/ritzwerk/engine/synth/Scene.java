@@ -16,6 +16,7 @@ import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.plasma.IonisationBalance;
 import org.ritzwerk.engine.profile.BalmerStark;
 import org.ritzwerk.engine.profile.Broadening;
@@ -254,7 +255,7 @@ public final class Scene {
     public static final class Builder {
         private final PixelGrid grid;
         private final List<HydrogenLikeEmitter> ions = new ArrayList<>();
-        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter or RelativeList
+        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter, RelativeList or RelativeSet
         private double temperature = 10_000;
         private double electronDensity = Double.NaN;
         private double velocity;
@@ -390,6 +391,33 @@ public final class Scene {
                         + " gives no line an intensity; a scene needs them");
             }
             lists.add(new RelativeList(list, nuclei));
+            return this;
+        }
+
+        /**
+         * Lines of a {@link LineSet} with relative intensities (a lamp list through a
+         * {@link org.ritzwerk.engine.lines.LineQuery}, say), treated as
+         * {@link #lineList(LineList, Function)} treats a list: one emitter per species, lines
+         * without an intensity left out, intensities scaled to the strongest ion line when the
+         * scene has one-electron ions. Labelled {@code "<species> <name>"}.
+         *
+         * @param set    the lines
+         * @param nuclei the nucleus of each species, for its mass in the Doppler width
+         * @return this builder
+         * @throws IllegalArgumentException when no line of the set has an intensity
+         */
+        public Builder lineSet(LineSet set, Function<Species, Nucleus> nuclei) {
+            Objects.requireNonNull(set, "set");
+            Objects.requireNonNull(nuclei, "nuclei");
+            boolean any = false;
+            for (int i = 0; i < set.size(); i++) {
+                any |= set.relativeIntensity(i).orElse(0) > 0;
+            }
+            if (!any) {
+                throw new IllegalArgumentException("the line set " + set + " gives no line an intensity; a scene needs"
+                        + " them");
+            }
+            lists.add(new RelativeSet(set, nuclei));
             return this;
         }
 
@@ -565,6 +593,11 @@ public final class Scene {
                     out.add(fixed);
                 } else if (entry instanceof AlkaliEmitter alkali) {
                     out.add(alkaliLines(alkali));
+                } else if (entry instanceof RelativeSet set) {
+                    if (Double.isNaN(ionScale)) {
+                        ionScale = strongestIonLine();
+                    }
+                    out.addAll(relativeSetLines(set, ionScale));
                 } else {
                     if (Double.isNaN(ionScale)) {
                         ionScale = strongestIonLine();
@@ -650,6 +683,39 @@ public final class Scene {
                                 + (list.medium() == null ? "" : " " + list.medium().label());
                         n++;
                     }
+                }
+                Nucleus nucleus = Objects.requireNonNull(r.nuclei().apply(species), "nucleus of " + species.notation());
+                double mass = nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
+                out.add(new ListEmitter(species.notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n), mass,
+                        Arrays.copyOf(labels, n)));
+            }
+            return out;
+        }
+
+        /** As {@link #relativeLines}, for a line set: one emitter per species, lines with an intensity. */
+        private List<ListEmitter> relativeSetLines(RelativeSet r, double ionScale) {
+            LineSet set = r.set();
+            double strongest = 0;
+            for (int i = 0; i < set.size(); i++) {
+                strongest = Math.max(strongest, set.relativeIntensity(i).orElse(0));
+            }
+            double scale = ionScale > 0 ? ionScale / strongest : 1;
+            List<ListEmitter> out = new ArrayList<>();
+            for (Species species : set.speciesList()) {
+                double[] nm = new double[set.size()];
+                double[] photons = new double[set.size()];
+                String[] labels = new String[set.size()];
+                int n = 0;
+                for (int i = 0; i < set.size(); i++) {
+                    if (set.species(i).equals(species) && set.relativeIntensity(i).isPresent()) {
+                        nm[n] = set.vacuumWavelengthNm(i);
+                        photons[n] = set.relativeIntensity(i).getAsDouble() * scale;
+                        labels[n] = species.notation() + " " + set.name(i);
+                        n++;
+                    }
+                }
+                if (n == 0) {
+                    continue;
                 }
                 Nucleus nucleus = Objects.requireNonNull(r.nuclei().apply(species), "nucleus of " + species.notation());
                 double mass = nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
@@ -768,6 +834,9 @@ public final class Scene {
     }
 
     private record RelativeList(LineList list, Function<Species, Nucleus> nuclei) {
+    }
+
+    private record RelativeSet(LineSet set, Function<Species, Nucleus> nuclei) {
     }
 
     /** Growable columns of lines. */

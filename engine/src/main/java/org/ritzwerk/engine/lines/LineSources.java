@@ -1,0 +1,92 @@
+package org.ritzwerk.engine.lines;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+
+/**
+ * The sources a {@link LineQuery} asks, given explicitly by the caller from its own data (a
+ * refdata {@code DataContext}, a provider jar, or values in code): one-electron ions with their
+ * level models, alkali atoms with their quantum-defect models, line lists, and ready-made line
+ * sets. Nothing is looked up anywhere else. Sources are asked in the order they were added.
+ *
+ * <p>Immutable and thread-safe; each {@code with} method returns a new object.
+ */
+public final class LineSources {
+
+    /** One source: exactly one of the fields is set. */
+    record Entry(Species species, HydrogenLikeModel model, AlkaliAtom atom, LineList list, LineSet set) {
+    }
+
+    private static final LineSources NONE = new LineSources(List.of());
+
+    private final List<Entry> entries;
+
+    private LineSources(List<Entry> entries) {
+        this.entries = entries;
+    }
+
+    /** @return no sources; add them with the {@code with} methods */
+    public static LineSources none() {
+        return NONE;
+    }
+
+    /**
+     * @param species the one-electron ion, e.g. {@code H I}, {@code He II}
+     * @param model   its level model (nucleus and tier; a query may ask for another tier)
+     * @return these sources and that ion
+     * @throws IllegalArgumentException when the species is not the one-electron ion of the model's nucleus
+     */
+    public LineSources withHydrogenLike(Species species, HydrogenLikeModel model) {
+        Objects.requireNonNull(species, "species");
+        Objects.requireNonNull(model, "model");
+        if (!species.isHydrogenLike() || species.z() != model.nucleus().z()) {
+            throw new IllegalArgumentException(species.notation() + " is not the one-electron ion of the model's "
+                    + "nucleus (Z = " + model.nucleus().z() + ")");
+        }
+        return with(new Entry(species, model, null, null, null));
+    }
+
+    /**
+     * @param atom an alkali atom (its quantum-defect model and measured levels)
+     * @return these sources and that atom
+     */
+    public LineSources withAlkali(AlkaliAtom atom) {
+        return with(new Entry(Objects.requireNonNull(atom, "atom").species(), null, atom, null, null));
+    }
+
+    /**
+     * @param list a line list: a built-in or user list, or a lamp list
+     * @return these sources and that list
+     */
+    public LineSources withLineList(LineList list) {
+        return with(new Entry(null, null, null, Objects.requireNonNull(list, "list"), null));
+    }
+
+    /**
+     * @param set lines already in a line set (the caller's own, or another query's result)
+     * @return these sources and those lines
+     */
+    public LineSources withLineSet(LineSet set) {
+        return with(new Entry(null, null, null, null, Objects.requireNonNull(set, "set")));
+    }
+
+    /** @return the number of sources */
+    public int size() {
+        return entries.size();
+    }
+
+    List<Entry> entries() {
+        return entries;
+    }
+
+    private LineSources with(Entry entry) {
+        List<Entry> more = new ArrayList<>(entries);
+        more.add(entry);
+        return new LineSources(List.copyOf(more));
+    }
+}

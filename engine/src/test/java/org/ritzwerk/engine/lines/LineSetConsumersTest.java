@@ -1,0 +1,117 @@
+package org.ritzwerk.engine.lines;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.List;
+import java.util.OptionalDouble;
+import java.util.function.Function;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.calibrate.LampSet;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.identify.Candidates;
+import org.ritzwerk.engine.identify.LineCatalog;
+import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * The identification catalogue, lamp lines and scene lines take a line set in one call, and give
+ * what their line-list paths give for the same list.
+ */
+class LineSetConsumersTest {
+
+    /**
+     * Ne-20: atomic mass 19.9924401762 u (AME2020, from memory), spin 0. Both paths compared here
+     * take the same nucleus, so its digits do not enter the checks.
+     */
+    private static final Nucleus NEON = new Nucleus(10, 20, Nucleus.nuclearMassKg(10, 19.9924401762), 0,
+            OptionalDouble.empty(), OptionalDouble.empty(), "AME2020");
+    private static final Function<Species, Nucleus> NUCLEI = s -> NEON;
+
+    @Test
+    void candidatesFromALineSetMatchTheListPath() {
+        LineList neon = Sources.neonInAir();
+        LineCatalog fromList = Candidates.inWindow(500e-9, 800e-9).lineList(neon).build().catalog();
+        LineCatalog fromSet = Candidates.inWindow(500e-9, 800e-9).lineSet(LineSet.of(neon)).build().catalog();
+        assertEquals(fromList.size(), fromSet.size());
+        for (int j = 0; j < fromList.size(); j++) {
+            // Source: Candidates.Builder.lineList on the same list (same conversion, same strengths).
+            assertEquals(fromList.wavelength(j), fromSet.wavelength(j), 0.0);
+            assertEquals(fromList.sigma(j), fromSet.sigma(j), 0.0);
+            assertEquals(fromList.strength(j), fromSet.strength(j), 0.0);
+            assertEquals(fromList.species(j), fromSet.species(j));
+        }
+        assertEquals("2p9 - 3s2", fromSet.label(1));
+        assertEquals("Ne I 585.2488 nm air", fromSet.label(0));
+    }
+
+    @Test
+    void multipletsBecomeBlendsSpanningTheirComponents() {
+        LineSet alpha = LineQuery.defaults().withWindowHz(4.5e14, 4.6e14).withMaxN(3).withMultiplets(true)
+                .withMultipletComponents(true)
+                .run(LineSources.none().withHydrogenLike(Sources.H, Sources.hydrogen(Tier.QED)));
+        LineCatalog catalog = Candidates.inWindow(600e-9, 700e-9).lineSet(alpha).build().catalog();
+        assertEquals(1, catalog.size());
+        assertTrue(catalog.isBlend(0));
+        assertEquals("Balmer alpha", catalog.label(0));
+        LineSet parts = alpha.components(0);
+        double shortest = Double.POSITIVE_INFINITY;
+        double longest = 0;
+        for (int k = 0; k < parts.size(); k++) {
+            shortest = Math.min(shortest, parts.vacuumWavelengthMetres(k));
+            longest = Math.max(longest, parts.vacuumWavelengthMetres(k));
+        }
+        // Source: the attached components' span; H-alpha's fine structure spans about 0.016 nm
+        // (3d5/2-2p3/2 to 3s1/2-2p1/2, common practice), between 0.01 and 0.03 nm.
+        assertEquals(longest - shortest, catalog.blendSpread(0), 0.0);
+        assertTrue(catalog.blendSpread(0) > 0.01e-9 && catalog.blendSpread(0) < 0.03e-9, "" + catalog.blendSpread(0));
+    }
+
+    @Test
+    void lampLinesFromALineSetMatchTheListPath() {
+        LineList neon = Sources.neonInAir();
+        LampSet fromList = LampSet.of(List.of(neon), Medium.air());
+        LampSet fromSet = LampSet.of(LineSet.of(neon), Medium.air());
+        assertEquals(fromList.size(), fromSet.size());
+        assertEquals(fromList.setIds(), fromSet.setIds());
+        for (int i = 0; i < fromList.size(); i++) {
+            // Source: LampSet.of(lists) on the same list; back through vacuum to air within rounding,
+            // the uncertainty through the air model's slope instead of the identity (1e-4 relative).
+            assertEquals(fromList.lines().wavelength(i), fromSet.lines().wavelength(i),
+                    1e-12 * fromList.lines().wavelength(i));
+            assertEquals(fromList.lines().intensity(i), fromSet.lines().intensity(i), 0.0);
+            assertEquals(fromList.lines().sigma(i), fromSet.lines().sigma(i), 1e-4 * fromList.lines().sigma(i));
+            assertEquals(fromList.label(i), fromSet.label(i));
+            assertEquals(fromList.strength(i), fromSet.strength(i));
+        }
+        assertEquals(fromList.lines().sigmasGiven(), fromSet.lines().sigmasGiven());
+        assertThrows(IllegalArgumentException.class, () -> LampSet.of(LineSet.empty(), Medium.air()));
+    }
+
+    @Test
+    void sceneLinesFromALineSetMatchTheListPath() {
+        LineList neon = Sources.neonInAir();
+        PixelGrid grid = PixelGrid.linear(580, 650, 700);
+        Scene.Lines fromList = Scene.builder(grid).medium(Medium.air()).lineList(neon, NUCLEI).build().lines();
+        Scene.Lines fromSet = Scene.builder(grid).medium(Medium.air()).lineSet(LineSet.of(neon), NUCLEI).build()
+                .lines();
+        assertEquals(fromList.size(), fromSet.size());
+        for (int i = 0; i < fromList.size(); i++) {
+            // Source: Scene.Builder.lineList on the same list.
+            assertEquals(fromList.position(i), fromSet.position(i), 1e-12 * fromList.position(i));
+            assertEquals(fromList.photons(i), fromSet.photons(i), 0.0);
+            assertEquals(fromList.gaussianFwhm(i), fromSet.gaussianFwhm(i), 1e-12 * fromList.gaussianFwhm(i));
+            assertEquals(fromList.label(i), fromSet.label(i));
+        }
+        LineSet dark = LineSet.builder().addWavelength(Species.parse("Ne I"), LineSet.Source.of("mine"), "dark",
+                600e-9).build();
+        assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid).lineSet(dark, NUCLEI));
+        assertEquals(PhysicalConstants.C / 600e-9, dark.frequencyHz(0), 0.0);
+    }
+}

@@ -1,0 +1,64 @@
+package org.ritzwerk.refdata;
+
+import java.util.List;
+import java.util.Objects;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.lines.LineSources;
+
+/**
+ * Line sources for the engine's {@link org.ritzwerk.engine.lines.LineQuery} from a
+ * {@link DataContext}: the caller names species and line sets, the context passed in supplies
+ * their data (nuclei of one-electron ions, alkali atoms, line and lamp lists). Nothing is taken
+ * from a global context. Stateless and thread-safe.
+ */
+public final class DataLines {
+
+    private DataLines() {
+    }
+
+    /**
+     * @param context where the data comes from
+     * @param species one-electron ions ({@code H I}, {@code He II}, ...) and neutral alkali atoms
+     *                ({@code Rb-87 I}) of the context, in the order the sources are to be asked
+     * @param tier    the level model of the one-electron ions
+     * @return the sources: each ion with its context nucleus in that tier, each alkali atom as the
+     *         context assembles it
+     * @throws IllegalArgumentException naming a species that is neither
+     * @throws ReferenceDataException   when the context has no data for a species' isotope
+     */
+    public static LineSources sources(DataContext context, List<Species> species, Tier tier) {
+        Objects.requireNonNull(context, "context");
+        Objects.requireNonNull(tier, "tier");
+        LineSources sources = LineSources.none();
+        for (Species s : species) {
+            if (s.isHydrogenLike()) {
+                sources = sources.withHydrogenLike(s, HydrogenLikeModel.of(context.nucleus(s), tier));
+            } else if (s.charge() == 0 && context.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z())) {
+                sources = sources.withAlkali(context.alkaliAtom(s));
+            } else {
+                throw new IllegalArgumentException(s.notation() + " has no line source in this data context: it"
+                        + " computes one-electron ions (H I, D I, He II, C VI, ...) and the neutral alkali atoms "
+                        + context.alkaliSpecies().stream().map(Species::notation).toList());
+            }
+        }
+        return sources;
+    }
+
+    /**
+     * @param sources    sources so far (e.g. {@link LineSources#none()})
+     * @param context    where the data comes from
+     * @param idsOrPaths line or lamp set ids ({@code lamp-ne-i}) or line-list files
+     * @return the sources and those lists, in order
+     * @throws ReferenceDataException when a set is unknown or not a line list
+     * @throws DataFileException      when a file does not read
+     */
+    public static LineSources withLineLists(LineSources sources, DataContext context, List<String> idsOrPaths) {
+        LineSources more = Objects.requireNonNull(sources, "sources");
+        for (String set : idsOrPaths) {
+            more = more.withLineList(context.lineList(set));
+        }
+        return more;
+    }
+}
