@@ -13,7 +13,8 @@ import java.util.Locale;
  * the saturation vapour pressure over liquid water and the enhancement factor also from Davis
  * (1992), Metrologia 29, 67. At the standard conditions the result equals the standard-air
  * dispersion {@code (n-1) 1e8 = 5792105/(238.0185 - s^2) + 167917/(57.362 - s^2)} exactly, which
- * {@code AirVacuumTest} checks against specutils 1.9.1; at other conditions
+ * {@code AirVacuumTest} checks (with the CO2 scaling of eq. 2, at 450 and 400 ppm) against the
+ * paper's formula evaluated in mpmath at 40 digits; at other conditions
  * {@code CiddorPublishedValuesTest} checks it against the paper's Tables 1 and 3 (to 0.05e-8)
  * and the NIST refractive-index calculator (to 1e-9).
  *

@@ -12,24 +12,24 @@ import org.ritzwerk.testing.Golden;
 /**
  * Vacuum/air conversion against outside references.
  *
- * <p>Golden files {@code air-vacuum-specutils.csv} and {@code vacuum-air-specutils.csv}, made by
- * {@code make_golden.py} with specutils 1.9.1 ({@code vac_to_air}, {@code air_to_vac}), 2000 to
- * 17000 Angstrom; the library's results are checked there against the published formulas (Morton
- * 2000 eq. 8 after Birch &amp; Downs 1994; Ciddor 1996 eqs. 1 and 2). The tolerances are read from
- * the files' headers: 1e-14 relative for {@code vac_to_air} and the exact inverse
- * ({@code scheme="iteration"}), 1e-7 for the approximate inverses ({@code "inversion"},
- * {@code "Piskunov"}).
+ * <p>Golden files {@code air-vacuum-formula.csv} (vacuum to air) and {@code vacuum-air-formula.csv}
+ * (air to vacuum), made by {@code make_golden.py} with mpmath 1.2.1 at 40 digits from the published
+ * formulas (Morton 2000 eq. 8 after Birch &amp; Downs 1994; Ciddor 1996 eqs. 1 and 2 at its standard
+ * conditions), 2000 to 17000 Angstrom: vacuum to air by the formula directly, air to vacuum as the
+ * root of {@code lambda_vac = lambda_air n(lambda_vac)} found with mpmath's {@code findroot}. The
+ * tolerances are read from the files' headers: 1e-14 relative for vacuum to air and for the exact
+ * inverse ({@code exact}), 1e-7 for the one-step approximate inverse ({@code one-step}).
  */
 class AirVacuumTest {
 
-    private static final String AIR_FROM_VACUUM = "air-vacuum-specutils.csv";
-    private static final String VACUUM_FROM_AIR = "vacuum-air-specutils.csv";
+    private static final String AIR_FROM_VACUUM = "air-vacuum-formula.csv";
+    private static final String VACUUM_FROM_AIR = "vacuum-air-formula.csv";
     private static final double TOLERANCE = Golden.tolerance(AIR_FROM_VACUUM);
-    private static final double ITERATION_TOLERANCE = Golden.tolerance(VACUUM_FROM_AIR, "iteration");
+    private static final double INVERSE_TOLERANCE = Golden.tolerance(VACUUM_FROM_AIR, "exact");
     private static final double ANGSTROM = 1e-10;
 
     @Test
-    void standardAirIsSpecutilsMorton2000() {
+    void standardAirIsMorton2000Equation8() {
         Medium air = Medium.air();
         for (Map<String, String> row : Golden.rows(AIR_FROM_VACUUM)) {
             double vacuum = value(row, "vacuum_angstrom") * ANGSTROM;
@@ -38,32 +38,28 @@ class AirVacuumTest {
         }
         for (Map<String, String> row : Golden.rows(VACUUM_FROM_AIR)) {
             double airWavelength = value(row, "air_angstrom") * ANGSTROM;
-            double expected = value(row, "vac_Morton2000_iteration_angstrom") * ANGSTROM;
-            assertClose(expected, air.toVacuum(airWavelength), ITERATION_TOLERANCE,
+            double expected = value(row, "vac_Morton2000_angstrom") * ANGSTROM;
+            assertClose(expected, air.toVacuum(airWavelength), INVERSE_TOLERANCE,
                     "standard air to vacuum at " + airWavelength);
         }
     }
 
     @Test
-    void approximateInversesAreWithinTheirDeclaredTolerance() {
-        // The library's one-step inverse (n at the air wavelength) and the Piskunov closed form
-        // approximate the exact inverse; the golden header measures their error (< 5e-8) and
-        // declares 1e-7.
+    void oneStepInverseIsWithinItsDeclaredTolerance() {
+        // The one-step inverse lambda_air n(lambda_air) (n at the air wavelength) approximates the
+        // exact inverse; the golden header measures its error (< 5e-8) and declares 1e-7.
         Medium air = Medium.air();
-        double inversion = Golden.tolerance(VACUUM_FROM_AIR, "inversion");
-        double piskunov = Golden.tolerance(VACUUM_FROM_AIR, "piskunov");
+        double oneStep = Golden.tolerance(VACUUM_FROM_AIR, "one-step");
         for (Map<String, String> row : Golden.rows(VACUUM_FROM_AIR)) {
             double airWavelength = value(row, "air_angstrom") * ANGSTROM;
             double exact = air.toVacuum(airWavelength);
-            assertClose(value(row, "vac_Morton2000_inversion_angstrom") * ANGSTROM, exact, inversion,
+            assertClose(value(row, "vac_Morton2000_one_step_angstrom") * ANGSTROM, exact, oneStep,
                     "one-step inverse at " + airWavelength);
-            assertClose(value(row, "vac_Piskunov_angstrom") * ANGSTROM, exact, piskunov,
-                    "Piskunov inverse at " + airWavelength);
         }
     }
 
     @Test
-    void ciddorAtItsStandardConditionsIsSpecutilsCiddor1996() {
+    void ciddorAtItsStandardConditionsIsCiddor1996Equations1And2() {
         for (int co2 : List.of(450, 400)) {
             Medium air = Medium.air(new Ciddor1996(15, 101_325, 0, co2));
             String column = "Ciddor1996_co2_" + co2 + "ppm";
@@ -80,16 +76,16 @@ class AirVacuumTest {
                 if (airWavelength < 3000 * ANGSTROM || airWavelength > 16800 * ANGSTROM) {
                     continue;
                 }
-                assertClose(value(row, "vac_" + column + "_iteration_angstrom") * ANGSTROM,
-                        air.toVacuum(airWavelength), ITERATION_TOLERANCE, "Ciddor air (" + co2 + " ppm) to vacuum at " + airWavelength);
+                assertClose(value(row, "vac_" + column + "_angstrom") * ANGSTROM,
+                        air.toVacuum(airWavelength), INVERSE_TOLERANCE, "Ciddor air (" + co2 + " ppm) to vacuum at " + airWavelength);
             }
         }
     }
 
     @Test
     void publishedHydrogenAlphaPairUnderStandardAir() {
-        // H-alpha blend: vacuum 6564.614 A and air 6562.801 A as specutils' Morton2000 gives
-        // (golden rows); the commonly quoted air value is 6562.80 A (common practice).
+        // H-alpha blend: vacuum 6564.614 A gives air 6562.801 A by Morton 2000 eq. 8 (golden row of
+        // air-vacuum-formula.csv); the commonly quoted air value is 6562.80 A (common practice).
         double air = Medium.air().fromVacuum(6564.614 * ANGSTROM) / ANGSTROM;
         assertEquals(6562.80, air, 0.005);
     }

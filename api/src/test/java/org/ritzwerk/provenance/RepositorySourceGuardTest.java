@@ -61,7 +61,7 @@ class RepositorySourceGuardTest {
         clean("the repository holds this text, and much further along the same line, far from that word, "
                 + "a double/unresolved flag");
         clean("the " + C_WORD + " defaced the table (a word, not an id)");
-        clean("Debian packages python3-specutils 1.9.1-1, python3-numpy 1:1.24.2-1+deb12u1");
+        clean("Debian packages python3-mpmath 1.2.1-2, python3-numpy 1:1.24.2-1+deb12u1");
         clean("an id alone is not a source: " + FULL_ID);
         clean("https://physics.nist.gov/PhysRefData/Handbook/Tables/neontable2.htm");
     }

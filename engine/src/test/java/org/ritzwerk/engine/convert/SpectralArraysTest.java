@@ -20,7 +20,8 @@ import org.ritzwerk.quantity.Wavelength;
 
 /**
  * The bulk kernel agrees with the typed quantities (whose physics the api module checks against
- * mpmath and specutils) on seeded random columns, and names the element it refuses.
+ * golden values computed in mpmath, the air/vacuum ones from the published refractive-index
+ * formulas) on seeded random columns, and names the element it refuses.
  */
 class SpectralArraysTest {
 
