@@ -95,6 +95,8 @@ public final class FastLineRenderer {
     private static final double NONLINEAR_STEP = 0.7;
     /** The largest internal grid, points. */
     static final int MAX_POINTS = 1 << 26;
+    /** {@link Renderer#AUTO} takes this renderer only up to this many occupied width pairs. */
+    static final int AUTO_MAX_PAIRS = 256;
     /** Spreading grids held at once, in points (8 bytes each): 64 MB, or one grid if that is larger. */
     private static final long SPREAD_BUDGET = 1L << 23;
     /** Oversampling of the band by the internal grid. */
