@@ -105,6 +105,21 @@ class SynthCommandTest {
     }
 
     @Test
+    void theRendererCanBeChosen() {
+        String[] common = {"synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm", "--temperature",
+            "10000", "--no-noise", "--pixels", "500"};
+        CliTest.Run auto = CliTest.run(common);
+        CliTest.Run exact = CliTest.run(concat(common, "--renderer", "exact"));
+        CliTest.Run fast = CliTest.run(concat(common, "--renderer", "fast"));
+        assertEquals(0, fast.code(), fast.err());
+        assertEquals(auto.out(), exact.out());
+        assertNotEquals(exact.out(), fast.out());
+        CliTest.Run bad = CliTest.run(concat(common, "--renderer", "quick"));
+        assertEquals(2, bad.code());
+        assertTrue(bad.err().contains("--renderer must be exact, fast or auto, got 'quick'"), bad.err());
+    }
+
+    @Test
     void clearErrors() {
         CliTest.Run grid = CliTest.run("synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
                 "--temperature", "8000", "--grid", "cubic");

@@ -21,10 +21,12 @@ import org.ritzwerk.engine.profile.Broadening;
 import org.ritzwerk.engine.profile.Faddeeva;
 import org.ritzwerk.engine.profile.Profiles;
 import org.ritzwerk.engine.synth.Continuum;
+import org.ritzwerk.engine.synth.FastLineRenderer;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.LineRenderer;
 import org.ritzwerk.engine.synth.Noise;
 import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Renderer;
 import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
@@ -141,6 +143,15 @@ class UserGuideTest {
         }
         assertEquals(240, brightest);                                    // 656.200-656.205 nm
 
+        // The same lines through the Fourier domain (for large line lists): whole profiles, within
+        // 1e-4 of the brightest pixel of the exact result.
+        double[] fast = new double[grid.pixels()];
+        new FastLineRenderer(grid, Instrument.ofResolvingPower(20_000))
+                .render(centresNm, fluxes, gaussianFwhmNm, lorentzFwhmNm, fast);
+        for (int p = 0; p < pixels.length; p++) {
+            assertEquals(pixels[p], fast[p], 1e-4 * pixels[brightest]);
+        }
+
         double scale = 1e-9;                                            // invented: counts per W m^-2 sr^-1
         Continuum.render(grid, nm -> 1e-9 * Continuum.planckPerWavelength(nm * 1e-9, 4500) * scale, pixels);
         double[] clean = pixels.clone();
@@ -190,6 +201,7 @@ class UserGuideTest {
                 .medium(Medium.air()).instrument(Instrument.ofResolvingPower(8000))
                 .continuum(nm -> Continuum.planckPerWavelength(nm * 1e-9, 25_000), 100)
                 .noise(3.0, 42L)
+                .renderer(Renderer.AUTO)                                       // or EXACT, FAST
                 .build();
         SyntheticSpectrum spectrum = scene.render(4);                       // counts(), expectedCounts(), lines()
 

@@ -68,6 +68,7 @@ public final class Scene {
     private final PixelGrid grid;
     private final Instrument instrument;
     private final double window;
+    private final Renderer renderer;
     private final double peakCounts;
     private final DoubleUnaryOperator continuum;
     private final double continuumCounts;
@@ -81,6 +82,7 @@ public final class Scene {
         this.grid = b.grid;
         this.instrument = b.instrument;
         this.window = b.window;
+        this.renderer = b.renderer;
         this.peakCounts = b.peakCounts;
         this.continuum = b.continuum;
         this.continuumCounts = b.continuumCounts;
@@ -134,8 +136,16 @@ public final class Scene {
     public SyntheticSpectrum render(int threads, DoubleConsumer progress) {
         int pixels = grid.pixels();
         double[] lineFlux = new double[pixels];
-        new LineRenderer(grid, instrument, window).render(lines.position, lines.photons, lines.gaussian,
-                lines.lorentz, lineFlux, threads, progress);
+        if (usesFastRenderer()) {
+            new FastLineRenderer(grid, instrument).render(lines.position, lines.photons, lines.gaussian, lines.lorentz,
+                    lineFlux, threads);
+            if (progress != null) {
+                progress.accept(1);
+            }
+        } else {
+            new LineRenderer(grid, instrument, window).render(lines.position, lines.photons, lines.gaussian,
+                    lines.lorentz, lineFlux, threads, progress);
+        }
         double brightest = 0;
         for (double v : lineFlux) {
             brightest = Math.max(brightest, v);
@@ -172,6 +182,22 @@ public final class Scene {
             lineCounts[i] = lines.photons[i] * scale;
         }
         return new SyntheticSpectrum(grid, expected, counts, lines, lineCounts);
+    }
+
+    /**
+     * @return whether {@link #render(int)} uses {@link FastLineRenderer} (chosen, or picked by
+     *         {@link Renderer#AUTO}) rather than {@link LineRenderer}
+     */
+    public boolean usesFastRenderer() {
+        if (renderer != Renderer.AUTO) {
+            return renderer == Renderer.FAST;
+        }
+        if ((double) lines.size() * grid.pixels() < Renderer.AUTO_THRESHOLD) {
+            return false;
+        }
+        long[] size = new FastLineRenderer(grid, instrument).size(lines.position, lines.photons, lines.gaussian,
+                lines.lorentz);
+        return size[0] <= FastLineRenderer.MAX_POINTS && size[1] <= FastLineRenderer.AUTO_MAX_PAIRS;
     }
 
     /**
@@ -265,6 +291,7 @@ public final class Scene {
         private Medium medium = Medium.vacuum();
         private Instrument instrument = Instrument.ideal();
         private double window = LineRenderer.DEFAULT_WINDOW;
+        private Renderer renderer = Renderer.AUTO;
         private double peakCounts = 10_000;
         private DoubleUnaryOperator continuum;
         private double continuumCounts;
@@ -490,6 +517,16 @@ public final class Scene {
         /** @param fwhms rendering window half-width in Voigt FWHMs, see {@link LineRenderer} */
         public Builder window(double fwhms) {
             this.window = fwhms;
+            return this;
+        }
+
+        /**
+         * @param choice the renderer: {@link Renderer#EXACT}, {@link Renderer#FAST}, or
+         *               {@link Renderer#AUTO} (the default) to choose by problem size
+         * @return this builder
+         */
+        public Builder renderer(Renderer choice) {
+            this.renderer = Objects.requireNonNull(choice, "renderer");
             return this;
         }
 

@@ -1,6 +1,8 @@
 /**
  * Synthetic spectra: pixel grids (linear, logarithmic, dispersion polynomial) and the windowed
- * rendering of many lines into pixel fluxes, each pixel receiving the flux that falls into it.
- * Stateless renderers over primitive arrays; thread-safe.
+ * rendering of many lines into pixel fluxes, each pixel receiving the flux that falls into it
+ * ({@link org.ritzwerk.engine.synth.LineRenderer}, exact; {@link org.ritzwerk.engine.synth.FastLineRenderer},
+ * through the Fourier domain, for large line lists). Stateless renderers over primitive arrays;
+ * thread-safe.
  */
 package org.ritzwerk.engine.synth;

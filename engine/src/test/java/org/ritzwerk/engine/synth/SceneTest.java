@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.synth;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -55,6 +56,33 @@ class SceneTest {
         // Lines beyond the ends (the Balmer limit side) spill a little in; none near 380 here.
         assertEquals(lines, pixels, 1e-6 * lines);
         assertEquals(10_000, Arrays.stream(spectrum.expectedCounts()).max().orElseThrow(), 1e-9);
+    }
+
+    @Test
+    void theFastRendererDrawsTheSameSceneWithinItsBound() {
+        // Gaussian-only lines (Doppler and instrument): the exact renderer's window leaves out
+        // nothing measurable, so the two differ only by the fast renderer's error, at most 1e-4
+        // of the brightest pixel (3e-5 asked here, as in FastLineRendererTest).
+        PixelGrid grid = PixelGrid.logarithmic(380, 700, 20_000);
+        Scene.Builder builder = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1)
+                .hydrogenLike(Species.parse("He II"), HE_II, 0.1).temperature(20_000)
+                .instrument(Instrument.ofResolvingPower(8000)).medium(Medium.air());
+        Scene exact = builder.renderer(Renderer.EXACT).build();
+        Scene fast = builder.renderer(Renderer.FAST).build();
+        assertFalse(exact.usesFastRenderer());
+        assertTrue(fast.usesFastRenderer());
+        double[] a = exact.render(1).expectedCounts();
+        double[] b = fast.render(2).expectedCounts();
+        for (int p = 0; p < a.length; p++) {
+            assertEquals(a[p], b[p], 3e-5 * 10_000, "pixel " + p);
+        }
+    }
+
+    @Test
+    void autoKeepsSmallScenesOnTheExactRenderer() {
+        Scene scene = Scene.builder(PixelGrid.linear(400, 700, 4000)).hydrogenLike(Species.parse("H I"), H, 1).build();
+        assertFalse(scene.usesFastRenderer());
+        assertTrue(scene.lines().size() * 4000.0 < Renderer.AUTO_THRESHOLD);
     }
 
     @Test
