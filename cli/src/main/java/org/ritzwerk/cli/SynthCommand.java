@@ -333,7 +333,7 @@ final class SynthCommand implements Callable<Integer> {
             case "exact" -> Renderer.EXACT;
             case "fast" -> Renderer.FAST;
             case "auto" -> Renderer.AUTO;
-            default -> throw new IllegalArgumentException("--renderer must be exact, fast or auto, got '" + renderer
+            default -> throw new OptionException("--renderer must be exact, fast or auto, got '" + renderer
                     + "'");
         };
     }
