@@ -34,15 +34,13 @@ import picocli.CommandLine.Spec;
 @Command(name = "identify",
         mixinStandardHelpOptions = true,
         header = "Match measured peaks to candidate spectral lines.",
-        description = {
-            "Match measured peaks (a ritzwerk-peaks file) to candidate lines: one-electron ions",
-            "computed by the engine (--species) and line lists from the data sets or your files",
-            "(--lines). Each peak gets at most one line and each line at most one peak, chosen",
-            "together; optionally a Doppler velocity is found first. Prints every peak with its",
-            "line, residual and status (ambiguous: another line has posterior odds within 20:1),",
-            "then unexplained peaks, missing strong lines and the presence of each species",
-            "weighed against the matches chance gives at the local peak density."
-        },
+        description = "Match measured peaks (a ritzwerk-peaks file) to candidate lines: one-electron ions "
+                + "computed by the engine (--species) and line lists from the data sets or your files "
+                + "(--lines). Each peak gets at most one line and each line at most one peak, chosen "
+                + "together; optionally a Doppler velocity is found first. Prints every peak with its line, "
+                + "residual and status (ambiguous: another line has posterior odds within 20:1), then "
+                + "unexplained peaks, missing strong lines and the presence of each species weighed against "
+                + "the matches chance gives at the local peak density.",
         footer = {"", "Examples:",
             "  ritzwerk identify peaks.csv --species \"H I,He II\" --tolerance \"5 sigma\"",
             "  ritzwerk identify peaks.csv --lines lamp-ne-i --tolerance \"0.02 nm\"",
@@ -59,8 +57,8 @@ final class IdentifyCommand implements Callable<Integer> {
     Path peaksFile;
 
     @Option(names = "--species", paramLabel = "SPECIES",
-            description = {"Species whose lines the engine computes: one-electron ions (\"H I\", D, \"He II\")",
-                "and alkali atoms (\"Rb-87 I\", \"Cs I\", ...). Repeatable."})
+            description = "Species whose lines the engine computes: one-electron ions (\"H I\", D, \"He II\") and "
+                    + "alkali atoms (\"Rb-87 I\", \"Cs I\", ...). Repeatable.")
     List<String> species = new ArrayList<>();
 
     @Option(names = "--lines", paramLabel = "SET",
@@ -76,15 +74,15 @@ final class IdentifyCommand implements Callable<Integer> {
     int nMax;
 
     @Option(names = "--components",
-            description = {"Use fine-structure components of --species lines instead of n -> n' multiplets",
-                "(a multiplet counts as a blend: it may explain more than one peak, but only peaks",
-                "within its fine-structure spread plus the tolerance of one another)."})
+            description = "Use fine-structure components of --species lines instead of n -> n' multiplets (a "
+                    + "multiplet counts as a blend: it may explain more than one peak, but only peaks within "
+                    + "its fine-structure spread plus the tolerance of one another).")
     boolean components;
 
     @Option(names = "--tolerance", paramLabel = "TOL",
-            description = {"How far a peak may lie from its line: \"5 sigma\" (combined uncertainties;",
-                "the default when every peak has one), a width such as \"0.02 nm\" or \"0.5 cm-1\",",
-                "\"20 ppm\", or a resolving power \"R=20000\"."})
+            description = "How far a peak may lie from its line: \"5 sigma\" (combined uncertainties; the default "
+                    + "when every peak has one), a width such as \"0.02 nm\" or \"0.5 cm-1\", \"20 ppm\", or a "
+                    + "resolving power \"R=20000\".")
     String tolerance;
 
     @Option(names = "--search-velocity", paramLabel = "KM_PER_S",
@@ -97,16 +95,16 @@ final class IdentifyCommand implements Callable<Integer> {
     Double searchOffset;
 
     @Option(names = "--excitation-temperature", paramLabel = "K",
-            description = {"Weigh --species lines by g A exp(-E_upper / kT) at this temperature (kelvin)",
-                "instead of g A alone."})
+            description = "Weigh --species lines by g A exp(-E_upper / kT) at this temperature (kelvin) instead of "
+                    + "g A alone.")
     Double excitationTemperature;
 
     @Option(names = "--plasma",
-            description = {"Instead of the per-peak table, the plasma diagnostics the identified lines allow:",
-                "the excitation temperature of each --species from a Boltzmann plot of its matched",
-                "multiplets (peak intensities as photon counts), and the electron density from the",
-                "width column of matched H or D Balmer-alpha and -beta peaks (Stark fits of Gigosos et",
-                "al. 2003, after taking --instrument-fwhm and the Doppler width out)."})
+            description = "Instead of the per-peak table, the plasma diagnostics the identified lines allow: the "
+                    + "excitation temperature of each --species from a Boltzmann plot of its matched multiplets "
+                    + "(peak intensities as photon counts), and the electron density from the width column of "
+                    + "matched H or D Balmer-alpha and -beta peaks (Stark fits of Gigosos et al. 2003, after "
+                    + "taking --instrument-fwhm and the Doppler width out).")
     boolean plasma;
 
     @Option(names = "--instrument-fwhm", paramLabel = "NM", defaultValue = "0",

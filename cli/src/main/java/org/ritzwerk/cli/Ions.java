@@ -13,8 +13,8 @@ import picocli.CommandLine.Option;
 final class Ions {
 
     @Option(names = "--species", paramLabel = "SPECIES",
-            description = {"Comma-separated or repeated: one-electron ions (\"H I\", D, \"He II\", C5+), or",
-                "alkali atoms (\"Rb-87 I\", \"Cs I\") where the command takes them."})
+            description = "Comma-separated or repeated: one-electron ions (\"H I\", D, \"He II\", C5+), or alkali "
+                    + "atoms (\"Rb-87 I\", \"Cs I\") where the command takes them.")
     List<String> species = new ArrayList<>();
 
     @Option(names = "--model", paramLabel = "MODEL", defaultValue = "qed",

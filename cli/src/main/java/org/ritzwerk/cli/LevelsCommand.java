@@ -21,15 +21,13 @@ import picocli.CommandLine.Spec;
 @Command(name = "levels",
         mixinStandardHelpOptions = true,
         header = "Energy levels of one-electron ions and alkali atoms.",
-        description = {
-            "Energy levels of one-electron ions (H I, D I, He II, C VI, ... U XCII), in cm-1 above the",
-            "ground state, under a chosen model: bohr (reduced mass), dirac (fine structure and",
-            "recoil), qed (plus the leading Lamb shift and nuclear size), hyperfine (plus s-level",
-            "hyperfine structure). Nuclear data from the built-in set (AME2020 masses, ...).",
-            "Also the neutral alkali atoms (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133): measured low",
-            "levels and quantum-defect (Rydberg-Ritz) levels up to --n-max, l <= --l-max; the model",
-            "column says where each energy comes from."
-        },
+        description = "Energy levels of one-electron ions (H I, D I, He II, C VI, ... U XCII), in cm-1 above "
+                + "the ground state, under a chosen model: bohr (reduced mass), dirac (fine structure and "
+                + "recoil), qed (plus the leading Lamb shift and nuclear size), hyperfine (plus s-level "
+                + "hyperfine structure). Nuclear data from the built-in set (AME2020 masses, ...). Also the "
+                + "neutral alkali atoms (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133): measured low levels and "
+                + "quantum-defect (Rydberg-Ritz) levels up to --n-max, l <= --l-max; the model column says "
+                + "where each energy comes from.",
         footer = {"", "Examples:",
             "  ritzwerk levels --species \"H I\" --n-max 3",
             "  ritzwerk levels --species D --model hyperfine --n-max 2 --format json",
@@ -52,8 +50,8 @@ final class LevelsCommand implements Callable<Integer> {
     int nMax;
 
     @Option(names = "--lifetimes",
-            description = {"Add each level's radiative lifetime from E1 decays alone: null for 1s; 2s",
-                "decays mainly by two-photon emission (0.12 s in H), which is not included."})
+            description = "Add each level's radiative lifetime from E1 decays alone: null for 1s; 2s decays mainly "
+                    + "by two-photon emission (0.12 s in H), which is not included.")
     boolean lifetimes;
 
     @Option(names = "--l-max", paramLabel = "L", defaultValue = "3",
@@ -61,8 +59,8 @@ final class LevelsCommand implements Callable<Integer> {
     int lMax;
 
     @Option(names = "--temperature", paramLabel = "K",
-            description = {"Alkali atoms with --lifetimes: also the effective lifetime with black-body",
-                "radiation at this temperature (bound states only; photoionisation left out)."})
+            description = "Alkali atoms with --lifetimes: also the effective lifetime with black-body radiation at "
+                    + "this temperature (bound states only; photoionisation left out).")
     Double temperature;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",

@@ -21,16 +21,14 @@ import picocli.CommandLine.Spec;
 @Command(name = "lines",
         mixinStandardHelpOptions = true,
         header = "Electric-dipole lines of one-electron ions and alkali atoms, with their rates.",
-        description = {
-            "Electric-dipole lines of one-electron ions between two spectral positions, with",
-            "Einstein A, oscillator strength and line name: fine-structure components, or",
-            "n -> n' multiplets with --multiplets. --from and --to take any unit; a wavelength",
-            "without a medium is in vacuum (write \"400 nm air\" for air). Also the neutral alkali",
-            "atoms (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133): lines between their levels (n <= --n-max,",
-            "l <= --l-max), one --transition in detail, or a two-photon --ladder.",
-            "--hyperfine: the F -> F' components of the D lines of alkali isotopes (also Li-6, K-40,",
-            "K-41), each with its share of the line strength; with --field-tesla their m_F components."
-        },
+        description = "Electric-dipole lines of one-electron ions between two spectral positions, with Einstein "
+                + "A, oscillator strength and line name: fine-structure components, or n -> n' multiplets "
+                + "with --multiplets. --from and --to take any unit; a wavelength without a medium is in "
+                + "vacuum (write \"400 nm air\" for air). Also the neutral alkali atoms (Li-7, Na-23, K-39, "
+                + "Rb-85, Rb-87, Cs-133): lines between their levels (n <= --n-max, l <= --l-max), one "
+                + "--transition in detail, or a two-photon --ladder. --hyperfine: the F -> F' components of "
+                + "the D lines of alkali isotopes (also Li-6, K-40, K-41), each with its share of the line "
+                + "strength; with --field-tesla their m_F components.",
         footer = {"", "Examples:",
             "  ritzwerk lines --species \"H I\" --from \"400 nm air\" --to \"700 nm air\" --medium air",
             "  ritzwerk lines --species \"H I,He II\" --from 4.9GHz --to 5.1GHz --n-max 200 --multiplets",
@@ -59,8 +57,8 @@ final class LinesCommand implements Callable<Integer> {
     String to;
 
     @Option(names = "--transition", paramLabel = "STATE -> STATE",
-            description = {"Alkali atoms: one transition in detail, e.g. \"50d5/2 -> 51p3/2\": frequency,",
-                "wavelengths, reduced dipole matrix element, A, f, and both states' lifetimes."})
+            description = "Alkali atoms: one transition in detail, e.g. \"50d5/2 -> 51p3/2\": frequency, "
+                    + "wavelengths, reduced dipole matrix element, A, f, and both states' lifetimes.")
     String transition;
 
     @Option(names = "--ladder", paramLabel = "S1,S2,S3",

@@ -36,21 +36,17 @@ import picocli.CommandLine.Spec;
 @Command(name = "synth",
         mixinStandardHelpOptions = true,
         header = "Render a synthetic emission spectrum.",
-        description = {
-            "Render a synthetic emission spectrum: the n -> n' lines of one-electron ions (and the lines of",
-            "alkali atoms, and line lists with --lines), upper",
-            "levels populated by Boltzmann's law at --temperature (which also sets the Doppler",
-            "width), seen through a Gaussian instrument of --resolving-power, integrated over",
-            "each pixel, scaled so the brightest pixel expects --peak-counts, then given Poisson",
-            "and read noise from --seed. Writes a ritzwerk-spectrum CSV; --truth also writes the",
-            "lines that went in."
-        },
+        description = "Render a synthetic emission spectrum: the n -> n' lines of one-electron ions (and the "
+                + "lines of alkali atoms, and line lists with --lines), upper levels populated by "
+                + "Boltzmann's law at --temperature (which also sets the Doppler width), seen through a "
+                + "Gaussian instrument of --resolving-power, integrated over each pixel, scaled so the "
+                + "brightest pixel expects --peak-counts, then given Poisson and read noise from --seed. "
+                + "Writes a ritzwerk-spectrum CSV; --truth also writes the lines that went in.",
         footer = {"", "Examples:",
-            "  ritzwerk synth --species \"H I\" --from \"640 nm air\" --to \"670 nm air\" --medium air \\",
-            "      --temperature 9000",
-            "  ritzwerk synth --species \"H I,He II\" --from \"380 nm air\" --to \"700 nm air\" --medium air \\",
-            "      --temperature 20000 \\",
-            "      --resolving-power 5000 --pixels 20000 --seed 7 --out scene.csv --truth scene-lines.csv"})
+            "  ritzwerk synth --species \"H I\" --from \"640 nm air\" --to \"670 nm air\" --temperature 9000",
+            "  ritzwerk synth --species \"H I,He II\" --from 380nm --to 700nm --temperature 20000 --seed 7",
+            "  ritzwerk synth --lines lamp-ne-i --dispersion 540,0.06,-2e-6 --pixels 2048 --temperature 400",
+            "  ritzwerk synth --species H --from 380nm --to 700nm --temperature 9000 --out s.csv --truth t.csv"})
 final class SynthCommand implements Callable<Integer> {
 
     @Spec
@@ -69,14 +65,15 @@ final class SynthCommand implements Callable<Integer> {
     String to;
 
     @Option(names = "--dispersion", paramLabel = "C0,C1,...",
-            description = {"Instead of --from/--to: pixel p (0-based, centre) sees c0 + c1 p + c2 p^2 + ... nm",
-                "in the axis medium, for --pixels pixels, as a spectrometer's dispersion does."})
+            description = "Instead of --from/--to: pixel p (0-based, centre) sees c0 + c1 p + c2 p^2 + ... nm in "
+                    + "the axis medium, for --pixels pixels, as a spectrometer's dispersion does.")
     String dispersion;
 
     @Option(names = "--lines", paramLabel = "SET",
-            description = {"Also draw a line list: a data set id (e.g. lamp-ne-i) or a line-list file, with its",
-                "relative intensities (lines without one are left out). Repeatable. With --species too,",
-                "each list is scaled so its strongest line carries as many photons as the strongest ion line."})
+            description = "Also draw a line list: a data set id (e.g. lamp-ne-i) or a line-list file, with its "
+                    + "relative intensities (lines without one are left out). Repeatable. With --species too, "
+                    + "each list is scaled so its strongest line carries as many photons as the strongest ion "
+                    + "line.")
     List<String> lineSets = new ArrayList<>();
 
     @Option(names = "--medium", paramLabel = "MEDIUM", defaultValue = "vacuum",
@@ -88,8 +85,8 @@ final class SynthCommand implements Callable<Integer> {
     double temperature;
 
     @Option(names = "--velocity", paramLabel = "KM_S", defaultValue = "0",
-            description = {"Line-of-sight velocity of the emitters in km/s, positive away: every line is",
-                "shifted by the relativistic Doppler factor sqrt((1 + v/c) / (1 - v/c)). Default: ${DEFAULT-VALUE}."})
+            description = "Line-of-sight velocity of the emitters in km/s, positive away: every line is shifted by "
+                    + "the relativistic Doppler factor sqrt((1 + v/c) / (1 - v/c)). Default: ${DEFAULT-VALUE}.")
     double velocity;
 
     @Option(names = "--collisional-width", paramLabel = "NM", defaultValue = "0",
@@ -128,24 +125,25 @@ final class SynthCommand implements Callable<Integer> {
     boolean noNoise;
 
     @Option(names = "--electron-density", paramLabel = "PER_M3",
-            description = {"Electron density in m^-3: weights H I, He II (and He I) by the Saha balance at",
-                "--temperature and gives H-alpha and H-beta their Stark widths (Gigosos et al. 2003 fits)."})
+            description = "Electron density in m^-3: weights H I, He II (and He I) by the Saha balance at "
+                    + "--temperature and gives H-alpha and H-beta their Stark widths (Gigosos et al. 2003 "
+                    + "fits).")
     Double electronDensity;
 
     @Option(names = "--abundance", paramLabel = "ELEMENT=N",
-            description = {"Relative number of atoms of an element, e.g. He=0.1 (repeatable; default 1 each)."})
+            description = "Relative number of atoms of an element, e.g. He=0.1 (repeatable; default 1 each).")
     java.util.List<String> abundances = new java.util.ArrayList<>();
 
     @Option(names = "--natural-widths", description = "Add the lines' natural (radiative) widths; needs --n-max <= 60.")
     boolean naturalWidths;
 
     @Option(names = "--continuum", paramLabel = "KIND", defaultValue = "none",
-            description = {"none, flat, or blackbody (at --continuum-temperature). Default: ${DEFAULT-VALUE}."})
+            description = "none, flat, or blackbody (at --continuum-temperature). Default: ${DEFAULT-VALUE}.")
     String continuumKind;
 
     @Option(names = "--continuum-file", paramLabel = "FILE",
-            description = {"A continuum of your own: CSV with a header wavelength_nm,density (axis medium),",
-                "wavelengths rising and covering the range; linear between points."})
+            description = "A continuum of your own: CSV with a header wavelength_nm,density (axis medium), "
+                    + "wavelengths rising and covering the range; linear between points.")
     Path continuumFile;
 
     @Option(names = "--continuum-temperature", paramLabel = "K",
@@ -157,8 +155,8 @@ final class SynthCommand implements Callable<Integer> {
     double continuumCounts;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "csv",
-            description = {"csv (ritzwerk-spectrum 1) or json (one document with the pixels and the lines).",
-                "Default: ${DEFAULT-VALUE}."})
+            description = "csv (ritzwerk-spectrum 1) or json (one document with the pixels and the lines). Default: "
+                    + "${DEFAULT-VALUE}.")
     String format;
 
     @Option(names = "--plot", paramLabel = "PNG", description = "Also draw the spectrum, strongest lines labelled, into this PNG.")
@@ -173,9 +171,9 @@ final class SynthCommand implements Callable<Integer> {
     Integer threads;
 
     @Option(names = "--renderer", paramLabel = "KIND", defaultValue = "auto",
-            description = {"exact (each line integrated over each pixel within 50 FWHMs), fast (all lines at once in "
-                    + "the Fourier domain, whole profiles, within 1e-4 of the peak), or auto (fast from 1e9 lines x "
-                    + "pixels). Default: ${DEFAULT-VALUE}."})
+            description = "exact (each line integrated over each pixel within 50 FWHMs), fast (all lines at once in "
+                    + "the Fourier domain, whole profiles, within 1e-4 of the peak), or auto (fast from 1e9 "
+                    + "lines x pixels). Default: ${DEFAULT-VALUE}.")
     String renderer;
 
     @Option(names = "--out", paramLabel = "FILE", description = "Write the spectrum here instead of to the output.")
