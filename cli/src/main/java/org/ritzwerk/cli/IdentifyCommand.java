@@ -284,6 +284,16 @@ final class IdentifyCommand implements Callable<Integer> {
                 builder.alkali(atom, nMax, Progress.on(spec.commandLine().getErr(), "identify: "
                         + atom.species().notation() + " lines"));
             }
+            double units = 0;
+            for (Ions.Ion ion : atoms.ions()) {
+                units += HydrogenLikeLines.of(ion.model()).workUnits(nMax, PhysicalConstants.C / window[1],
+                        PhysicalConstants.C / window[0], components);
+            }
+            WorkEstimate.hydrogenLines("identify", "the candidate lines of the one-electron ions up to n = " + nMax,
+                    units).ifPresent(note -> {
+                        spec.commandLine().getErr().println(note);
+                        spec.commandLine().getErr().flush();
+                    });
             for (Ions.Ion ion : atoms.ions()) {
                 builder.hydrogenLike(ion.species(), ion.model(), nMax, components);
             }

@@ -140,6 +140,17 @@ final class LinesCommand implements Callable<Integer> {
         if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {
             throw new OptionException("--from and --to are the same position; give a window");
         }
+        double units = 0;
+        double lowHz = Math.min(one.toFrequency().inHertz(), two.toFrequency().inHertz());
+        double highHz = Math.max(one.toFrequency().inHertz(), two.toFrequency().inHertz());
+        for (Ions.Ion ion : atoms.ions()) {
+            units += HydrogenLikeLines.of(ion.model()).workUnits(nMax, lowHz, highHz, !multiplets);
+        }
+        WorkEstimate.hydrogenLines("lines", "the one-electron lines up to n = " + nMax + " in the window", units)
+                .ifPresent(note -> {
+                    spec.commandLine().getErr().println(note);
+                    spec.commandLine().getErr().flush();
+                });
         LineQuery query = LineQuery.defaults().withWindow(one, two).withMaxN(nMax).withMinEinsteinA(minA);
         LineSources ionSources = LineSources.none();
         for (Ions.Ion ion : atoms.ions()) {

@@ -59,6 +59,35 @@ final class WorkEstimate {
     }
 
     /**
+     * Seconds per work unit of one-electron lines ({@code HydrogenLikeLines.workUnits}): 13 s for
+     * 1.47e9 units (H, 4.9-5.1 GHz, n &lt;= 300) and 11 min of processor time for 9.5e10 units (n
+     * &lt;= 600), measured on the 2-core build machine under load.
+     */
+    private static final double HYDROGEN_LINES_SECONDS_PER_UNIT = 1e-8;
+
+    /** The longest run of one-electron lines {@code lines} and {@code identify} start, seconds. */
+    static final double HYDROGEN_LINES_LIMIT_SECONDS = 3600;
+
+    /**
+     * @param command the command, e.g. "lines"
+     * @param what    its job, e.g. "the one-electron lines up to n = 400 in the window"
+     * @param units the work units of the run ({@code HydrogenLikeLines.workUnits}, summed over ions)
+     * @return a notice to print before the run when it is expected to take long, else empty
+     * @throws OptionException when the run would take longer than {@link #HYDROGEN_LINES_LIMIT_SECONDS},
+     *         with the time it would take and what to change
+     */
+    static Optional<String> hydrogenLines(String command, String what, double units) {
+        double seconds = units * HYDROGEN_LINES_SECONDS_PER_UNIT;
+        if (seconds > HYDROGEN_LINES_LIMIT_SECONDS) {
+            throw new OptionException(String.format(Locale.ROOT, "%s would take about %s (a rough estimate: the"
+                    + " exact radial integrals of every pair of shells with lines in the window); runs up to about"
+                    + " %s are started; lower --n-max or narrow the window", what, Progress.duration(seconds),
+                    Progress.duration(HYDROGEN_LINES_LIMIT_SECONDS)));
+        }
+        return notice(command + ": " + what, seconds);
+    }
+
+    /**
      * @param what    what will be done
      * @param seconds the expected time
      * @return a notice when the time reaches {@link #NOTICE_SECONDS}, else empty

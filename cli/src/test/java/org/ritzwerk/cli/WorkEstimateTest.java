@@ -60,4 +60,25 @@ class WorkEstimateTest {
         assertEquals("lines: H I:  20 % (30.0 s, about 2 min left)   ", Progress.line("lines: H I", 0.2, 30));
         assertEquals("lines: H I: 100 % (30.0 s)   ", Progress.line("lines: H I", 1, 30));
     }
+
+    @Test
+    void longLineRunsAreAnnouncedAndRunsPastAnHourRefused() {
+        // Work units of H I multiplets at 4.9-5.1 GHz, from HydrogenLikeLines.workUnits (the
+        // engine's own count; 1.47e9 units took 13 s on the build machine).
+        org.ritzwerk.engine.hydrogenic.HydrogenLikeModel h = org.ritzwerk.engine.hydrogenic.HydrogenLikeModel.of(
+                org.ritzwerk.refdata.DataContext.builtIn().nucleus(org.ritzwerk.atom.Species.parse("H I")),
+                org.ritzwerk.engine.hydrogenic.Tier.QED);
+        org.ritzwerk.engine.hydrogenic.HydrogenLikeLines lines = org.ritzwerk.engine.hydrogenic.HydrogenLikeLines.of(h);
+        double small = lines.workUnits(100, 4.9e9, 5.1e9, false);
+        double mid = lines.workUnits(350, 4.9e9, 5.1e9, false);
+        double huge = lines.workUnits(2000, 4.9e9, 5.1e9, false);
+        assertTrue(small < mid && mid < huge, small + " " + mid + " " + huge);
+        assertTrue(WorkEstimate.hydrogenLines("lines", "x", small).isEmpty(), "n <= 100: no notice");
+        assertTrue(WorkEstimate.hydrogenLines("lines", "the one-electron lines", mid).orElseThrow()
+                .matches("note: lines: the one-electron lines will take about \\d+ s \\(a rough estimate\\); Ctrl-C stops it"));
+        OptionException refused = assertThrows(OptionException.class,
+                () -> WorkEstimate.hydrogenLines("lines", "the one-electron lines up to n = 2000", huge));
+        assertTrue(refused.getMessage().startsWith("the one-electron lines up to n = 2000 would take about ")
+                && refused.getMessage().contains("runs up to about 60 min are started"), refused.getMessage());
+    }
 }
