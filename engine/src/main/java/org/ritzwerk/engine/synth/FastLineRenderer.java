@@ -145,7 +145,7 @@ public final class FastLineRenderer {
      *         pixel range, or one line far wider: use {@link LineRenderer})
      */
     public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out) {
-        check(position, flux, gaussianFwhm, lorentzFwhm, out);
+        LineRenderer.checkLines(grid, instrument, position, flux, gaussianFwhm, lorentzFwhm, out);
         Plan plan = plan(position, flux, gaussianFwhm, lorentzFwhm);
         if (plan == null) {
             return;
@@ -181,35 +181,6 @@ public final class FastLineRenderer {
     long[] size(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm) {
         Plan plan = plan(position, flux, gaussianFwhm, lorentzFwhm);
         return plan == null ? new long[] {0, 0} : new long[] {plan.points, plan.pairs};
-    }
-
-    private void check(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out) {
-        int n = position.length;
-        if (flux.length != n || gaussianFwhm.length != n || lorentzFwhm.length != n) {
-            throw new IllegalArgumentException("positions, fluxes and widths must have one value per line: "
-                    + n + ", " + flux.length + ", " + gaussianFwhm.length + ", " + lorentzFwhm.length);
-        }
-        if (out.length != grid.pixels()) {
-            throw new IllegalArgumentException("the output needs one value per pixel (" + grid.pixels() + "), got "
-                    + out.length);
-        }
-        for (int i = 0; i < n; i++) {
-            check(i, "position", position[i], true);
-            check(i, "flux", flux[i], false);
-            check(i, "Gaussian FWHM", gaussianFwhm[i], false);
-            check(i, "Lorentzian FWHM", lorentzFwhm[i], false);
-            if (gaussianFwhm[i] == 0 && lorentzFwhm[i] == 0 && instrument.fwhmAt(position[i]) == 0) {
-                throw new IllegalArgumentException("line " + i + " has no width: give a Gaussian or Lorentzian FWHM "
-                        + "or an instrument response");
-            }
-        }
-    }
-
-    private static void check(int line, String field, double value, boolean anySign) {
-        if (!Double.isFinite(value) || (!anySign && value < 0)) {
-            throw new IllegalArgumentException("line " + line + ": " + field + " must be finite"
-                    + (anySign ? "" : " and not negative") + ", got " + value);
-        }
     }
 
     private double variance(double position, double gaussianFwhm) {

@@ -147,6 +147,18 @@ public final class LineRenderer {
 
     private void checkAll(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm,
             double[] out) {
+        checkLines(grid, instrument, position, flux, gaussianFwhm, lorentzFwhm, out);
+    }
+
+    /**
+     * The checks both renderers make of their input: one value per line in every column, one
+     * output value per pixel, finite values, widths and fluxes not negative, and some width for
+     * every line.
+     *
+     * @throws IllegalArgumentException naming the first line or array that breaks them
+     */
+    static void checkLines(PixelGrid grid, Instrument instrument, double[] position, double[] flux,
+            double[] gaussianFwhm, double[] lorentzFwhm, double[] out) {
         int n = position.length;
         if (flux.length != n || gaussianFwhm.length != n || lorentzFwhm.length != n) {
             throw new IllegalArgumentException("positions, fluxes and widths must have one value per line: "
