@@ -1,13 +1,10 @@
 package org.ritzwerk.refdata;
 
-import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.io.UncheckedIOException;
 import java.math.BigDecimal;
 import java.math.MathContext;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -156,7 +153,7 @@ public final class AlkaliHyperfine {
     public static AlkaliHyperfine read(InputStream dLineFile, String dLineName, InputStream constantsFile,
             String constantsName) {
         Map<Species, List<DLine>> lines = new LinkedHashMap<>();
-        for (Row row : rows(dLineFile, dLineName, D_LINE_FORMAT, D_LINE_COLUMNS)) {
+        for (BuiltInCsv.Row row : rows(dLineFile, dLineName, D_LINE_FORMAT, D_LINE_COLUMNS)) {
             try {
                 Species species = Species.parse(row.f[0]);
                 String line = row.f[1];
@@ -187,7 +184,7 @@ public final class AlkaliHyperfine {
             }
         }
         Map<Species, Map<State, LevelConstants>> hfs = new LinkedHashMap<>();
-        for (Row row : rows(constantsFile, constantsName, CONSTANTS_FORMAT, CONSTANTS_COLUMNS)) {
+        for (BuiltInCsv.Row row : rows(constantsFile, constantsName, CONSTANTS_FORMAT, CONSTANTS_COLUMNS)) {
             try {
                 Species species = Species.parse(row.f[0]);
                 State state = state(row.f[1]);
@@ -367,61 +364,12 @@ public final class AlkaliHyperfine {
                 + String.join(", ", constants(species).stream().map(c -> c.state().label()).toList()));
     }
 
-    private record Row(int number, String raw, String[] f) {
-    }
-
-    private static List<Row> rows(InputStream in, String name, String format, List<String> columns) {
-        List<Row> rows = new ArrayList<>();
-        Map<String, String> header = new LinkedHashMap<>();
-        try (BufferedReader reader = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
-            int number = 0;
-            boolean seenColumns = false;
-            for (String line = reader.readLine(); line != null; line = reader.readLine()) {
-                number++;
-                if (number == 1) {
-                    if (!line.equals("# " + format + " 1")) {
-                        throw bad(name, number, "first line must be '# " + format + " 1'", line);
-                    }
-                    continue;
-                }
-                if (line.isBlank()) {
-                    continue;
-                }
-                if (line.startsWith("#")) {
-                    int colon = line.indexOf(':');
-                    if (colon > 0) {
-                        header.put(line.substring(1, colon).strip(), line.substring(colon + 1).strip());
-                    }
-                    continue;
-                }
-                if (!seenColumns) {
-                    if (!line.equals(String.join(",", columns))) {
-                        throw bad(name, number, "columns must be " + String.join(",", columns), line);
-                    }
-                    seenColumns = true;
-                    continue;
-                }
-                String[] f = line.split(",", -1);
-                if (f.length != columns.size()) {
-                    throw bad(name, number, "expected " + columns.size() + " fields, got " + f.length, line);
-                }
-                rows.add(new Row(number, line, f));
-            }
-        } catch (IOException e) {
-            throw new UncheckedIOException(name + ": " + e.getMessage(), e);
-        }
-        for (String key : List.of("id", "source", "provenance")) {
-            if (header.getOrDefault(key, "").isEmpty()) {
-                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, name + ": header key '" + key
-                        + "' is missing");
-            }
-        }
-        return rows;
+    private static List<BuiltInCsv.Row> rows(InputStream in, String name, String format, List<String> columns) {
+        return BuiltInCsv.read(in, name, format, columns, false, List.of("id", "source", "provenance")).rows();
     }
 
     private static ReferenceDataException bad(String name, int number, String reason, String line) {
-        return new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, name + ":" + number + ": " + reason
-                + "\n    " + line);
+        return BuiltInCsv.bad(name, number, reason, line);
     }
 
     private static InputStream open(String resource) {

@@ -1,11 +1,8 @@
 package org.ritzwerk.refdata;
 
-import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -136,60 +133,26 @@ public final class RydbergData {
         String resource = "rydberg/model-potentials.csv";
         Map<Integer, List<ModelPotential.Parameters>> sets = new LinkedHashMap<>();
         Map<Integer, double[]> heads = new LinkedHashMap<>();
-        Map<String, String> header = new LinkedHashMap<>();
-        try (BufferedReader reader = new BufferedReader(new InputStreamReader(open(resource), StandardCharsets.UTF_8))) {
-            int number = 0;
-            boolean columns = false;
-            for (String line = reader.readLine(); line != null; line = reader.readLine()) {
-                number++;
-                if (number == 1 && !line.equals("# " + MODEL_POTENTIAL_FORMAT + " 1")) {
-                    throw bad(resource, number, "first line must be '# " + MODEL_POTENTIAL_FORMAT + " 1'", line);
+        BuiltInCsv table = BuiltInCsv.read(open(resource), resource, MODEL_POTENTIAL_FORMAT, MODEL_POTENTIAL_COLUMNS,
+                true, MODEL_POTENTIAL_KEYS);
+        Map<String, String> header = table.header();
+        for (BuiltInCsv.Row row : table.rows()) {
+            String[] f = row.f();
+            try {
+                int z = Elements.atomicNumber(f[0]).orElseThrow(() -> new IllegalArgumentException("unknown element " + f[0]));
+                if (Integer.parseInt(f[1]) != z) {
+                    throw new IllegalArgumentException("nuclear charge " + f[1] + " is not that of " + f[0]);
                 }
-                if (line.isBlank() || number == 1) {
-                    continue;
+                int l = Integer.parseInt(f[3]);
+                List<ModelPotential.Parameters> list = sets.computeIfAbsent(z, k -> new ArrayList<>());
+                if (l != list.size()) {
+                    throw new IllegalArgumentException("expected l = " + list.size());
                 }
-                if (line.startsWith("#")) {
-                    int colon = line.indexOf(':');
-                    if (colon > 0) {
-                        header.put(line.substring(1, colon).strip(), line.substring(colon + 1).strip());
-                    }
-                    continue;
-                }
-                if (!columns) {
-                    if (!line.equals(String.join(",", MODEL_POTENTIAL_COLUMNS))) {
-                        throw bad(resource, number, "columns must be " + String.join(",", MODEL_POTENTIAL_COLUMNS), line);
-                    }
-                    columns = true;
-                    continue;
-                }
-                String[] f = line.split(",", MODEL_POTENTIAL_COLUMNS.size());
-                try {
-                    if (f.length != MODEL_POTENTIAL_COLUMNS.size()) {
-                        throw new IllegalArgumentException("expected " + MODEL_POTENTIAL_COLUMNS.size() + " fields");
-                    }
-                    int z = Elements.atomicNumber(f[0]).orElseThrow(() -> new IllegalArgumentException("unknown element " + f[0]));
-                    if (Integer.parseInt(f[1]) != z) {
-                        throw new IllegalArgumentException("nuclear charge " + f[1] + " is not that of " + f[0]);
-                    }
-                    int l = Integer.parseInt(f[3]);
-                    List<ModelPotential.Parameters> list = sets.computeIfAbsent(z, k -> new ArrayList<>());
-                    if (l != list.size()) {
-                        throw new IllegalArgumentException("expected l = " + list.size());
-                    }
-                    heads.put(z, new double[] {Double.parseDouble(f[2]), z});
-                    list.add(new ModelPotential.Parameters(Double.parseDouble(f[4]), Double.parseDouble(f[5]),
-                            Double.parseDouble(f[6]), Double.parseDouble(f[7]), Double.parseDouble(f[8])));
-                } catch (RuntimeException e) {
-                    throw bad(resource, number, e.getMessage(), line);
-                }
-            }
-        } catch (IOException e) {
-            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
-        }
-        for (String key : MODEL_POTENTIAL_KEYS) {
-            if (header.getOrDefault(key, "").isEmpty()) {
-                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, resource + ": header key '" + key
-                        + "' is missing");
+                heads.put(z, new double[] {Double.parseDouble(f[2]), z});
+                list.add(new ModelPotential.Parameters(Double.parseDouble(f[4]), Double.parseDouble(f[5]),
+                        Double.parseDouble(f[6]), Double.parseDouble(f[7]), Double.parseDouble(f[8])));
+            } catch (RuntimeException e) {
+                throw bad(resource, row.number(), e.getMessage(), row.raw());
             }
         }
         String source = header.get("source") + " (" + Provenance.Kind.fromId(header.get("provenance")).id() + ")";
@@ -202,8 +165,7 @@ public final class RydbergData {
     }
 
     private static ReferenceDataException bad(String resource, int number, String reason, String line) {
-        return new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, resource + ":" + number + ": " + reason
-                + "\n    " + line);
+        return BuiltInCsv.bad(resource, number, reason, line);
     }
 
     private static InputStream open(String resource) {
