@@ -155,57 +155,57 @@ public final class AlkaliHyperfine {
         Map<Species, List<DLine>> lines = new LinkedHashMap<>();
         for (BuiltInCsv.Row row : rows(dLineFile, dLineName, D_LINE_FORMAT, D_LINE_COLUMNS)) {
             try {
-                Species species = Species.parse(row.f[0]);
-                String line = row.f[1];
+                Species species = Species.parse(row.f()[0]);
+                String line = row.f()[1];
                 if (!line.equals("D1") && !line.equals("D2")) {
                     throw new IllegalArgumentException("line must be D1 or D2, got '" + line + "'");
                 }
-                String unit = row.f[4];
+                String unit = row.f()[4];
                 if (!D_LINE_UNITS.contains(unit)) {
                     throw new IllegalArgumentException("unit must be one of " + D_LINE_UNITS + ", got '" + unit + "'");
                 }
-                BigDecimal value = new BigDecimal(row.f[2]);
-                BigDecimal unc = new BigDecimal(row.f[3]);
+                BigDecimal value = new BigDecimal(row.f()[2]);
+                BigDecimal unc = new BigDecimal(row.f()[3]);
                 if (value.signum() <= 0 || unc.signum() < 0) {
                     throw new IllegalArgumentException("frequency must be positive and its uncertainty not negative");
                 }
                 BigDecimal mhz = toMegahertz(value, unit);
                 BigDecimal perCm = unit.equals("cm-1") ? value : mhz.divide(C_MHZ_PER_CM, MathContext.DECIMAL128);
-                DLine d = new DLine(species, line, row.f[2], row.f[3], unit, mhz.movePointRight(6).doubleValue(),
+                DLine d = new DLine(species, line, row.f()[2], row.f()[3], unit, mhz.movePointRight(6).doubleValue(),
                         toMegahertz(unc, unit).movePointRight(6).doubleValue(), perCm.doubleValue(),
-                        Provenance.Kind.fromId(row.f[5]), row.f[6], row.f[7]);
+                        Provenance.Kind.fromId(row.f()[5]), row.f()[6], row.f()[7]);
                 List<DLine> list = lines.computeIfAbsent(species, k -> new ArrayList<>());
                 if (list.stream().anyMatch(x -> x.line().equals(line))) {
                     throw new IllegalArgumentException("second " + line + " of " + species.notation());
                 }
                 list.add(d);
             } catch (RuntimeException e) {
-                throw bad(dLineName, row.number, e.getMessage(), row.raw);
+                throw bad(dLineName, row.number(), e.getMessage(), row.raw());
             }
         }
         Map<Species, Map<State, LevelConstants>> hfs = new LinkedHashMap<>();
         for (BuiltInCsv.Row row : rows(constantsFile, constantsName, CONSTANTS_FORMAT, CONSTANTS_COLUMNS)) {
             try {
-                Species species = Species.parse(row.f[0]);
-                State state = state(row.f[1]);
-                double a = Double.parseDouble(row.f[2]);
-                Double.parseDouble(row.f[3]);
-                boolean hasB = !row.f[4].isEmpty();
+                Species species = Species.parse(row.f()[0]);
+                State state = state(row.f()[1]);
+                double a = Double.parseDouble(row.f()[2]);
+                Double.parseDouble(row.f()[3]);
+                boolean hasB = !row.f()[4].isEmpty();
                 if (hasB != (state.twoJ() > 1)) {
                     throw new IllegalArgumentException("B is given exactly for J > 1/2");
                 }
-                double b = hasB ? Double.parseDouble(row.f[4]) : 0;
+                double b = hasB ? Double.parseDouble(row.f()[4]) : 0;
                 if (hasB) {
-                    Double.parseDouble(row.f[5]);
+                    Double.parseDouble(row.f()[5]);
                 }
-                Provenance.Kind kind = Provenance.Kind.fromId(row.f[6]);
-                LevelConstants c = new LevelConstants(species, state, row.f[2], row.f[3], row.f[4], row.f[5],
-                        HyperfineConstants.ofMegahertz(a, b, row.f[7] + " (" + kind.id() + ")"), kind, row.f[7], row.f[8]);
+                Provenance.Kind kind = Provenance.Kind.fromId(row.f()[6]);
+                LevelConstants c = new LevelConstants(species, state, row.f()[2], row.f()[3], row.f()[4], row.f()[5],
+                        HyperfineConstants.ofMegahertz(a, b, row.f()[7] + " (" + kind.id() + ")"), kind, row.f()[7], row.f()[8]);
                 if (hfs.computeIfAbsent(species, k -> new LinkedHashMap<>()).put(state, c) != null) {
-                    throw new IllegalArgumentException("second row for " + species.notation() + " " + row.f[1]);
+                    throw new IllegalArgumentException("second row for " + species.notation() + " " + row.f()[1]);
                 }
             } catch (RuntimeException e) {
-                throw bad(constantsName, row.number, e.getMessage(), row.raw);
+                throw bad(constantsName, row.number(), e.getMessage(), row.raw());
             }
         }
         Map<Species, List<DLine>> frozen = new LinkedHashMap<>();
