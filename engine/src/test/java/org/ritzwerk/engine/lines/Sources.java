@@ -1,19 +1,14 @@
 package org.ritzwerk.engine.lines;
 
-import java.util.ArrayList;
 import java.util.List;
 import java.util.OptionalDouble;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
-import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
-import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LineList;
-import org.ritzwerk.data.MeasuredLevel;
 import org.ritzwerk.data.Provenance;
-import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.data.StrengthClass;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
@@ -56,31 +51,7 @@ final class Sources {
      * polarizabilities of Berl et al. 2020.
      */
     static AlkaliAtom rubidium() {
-        double rInf = PhysicalConstants.RYDBERG.value() / 100;
-        double rydberg = rInf / (1 + 5.48579909065e-4 / (86.909180529 - 5.48579909065e-4));
-        List<QuantumDefects.Series> series = new ArrayList<>();
-        series.add(new QuantumDefects.Series(0, 1, List.of(3.1311807, 0.1787), 10));
-        series.add(new QuantumDefects.Series(1, 1, List.of(2.6548849, 0.2900), 15));
-        series.add(new QuantumDefects.Series(1, 3, List.of(2.6416737, 0.2950), 15));
-        series.add(new QuantumDefects.Series(2, 3, List.of(1.3480948, -0.6054), 10));
-        series.add(new QuantumDefects.Series(2, 5, List.of(1.3464622, -0.5940), 10));
-        series.add(new QuantumDefects.Series(3, 5, List.of(0.0165192, -0.085), 7));
-        series.add(new QuantumDefects.Series(3, 7, List.of(0.0165437, -0.086), 7));
-        Species rb = new Species(37, 87, 0);
-        DataSetInfo info = new DataSetInfo("test-rb", DataKind.QUANTUM_DEFECTS, "test set", "1",
-                Provenance.computedBy("test"), List.of(rb));
-        QuantumDefects set = new QuantumDefects(info, rb, 33690.804799, rydberg, series);
-        List<MeasuredLevel> low = new ArrayList<>();
-        String src = "NIST ASD Rb I levels, from memory, as in refdata's levels-rb-87";
-        low.add(new MeasuredLevel(State.of(5, 0, 1), 0, src));
-        low.add(new MeasuredLevel(State.of(5, 1, 1), 12578.950, src));
-        low.add(new MeasuredLevel(State.of(5, 1, 3), 12816.545, src));
-        low.add(new MeasuredLevel(State.of(4, 2, 5), 19355.202, src));
-        low.add(new MeasuredLevel(State.of(4, 2, 3), 19355.648, src));
-        low.add(new MeasuredLevel(State.of(4, 3, 7), 26792.091, src));
-        low.add(new MeasuredLevel(State.of(4, 3, 5), 26792.117, src));
-        return AlkaliAtom.of(set, low, new CorePolarizability(9.116, 38.4,
-                "S. Berl et al., Phys. Rev. A 102, 062818 (2020), read in its abstract"));
+        return org.ritzwerk.engine.rydberg.TestAtoms.rubidium();
     }
 
     /**

@@ -13,7 +13,7 @@ import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
 
 /** Small atoms for the engine's own tests (the built-in data sets live in refdata). */
-final class TestAtoms {
+public final class TestAtoms {
 
     static final double R_INF_PER_CM = PhysicalConstants.RYDBERG.value() / 100;
 
@@ -32,7 +32,7 @@ final class TestAtoms {
      * measured levels (NIST ASD in cm-1, from memory, as in refdata) so that the ground and D lines
      * exist; core polarizabilities as in refdata (Berl et al. 2020).
      */
-    static AlkaliAtom rubidium() {
+    public static AlkaliAtom rubidium() {
         double rydberg = R_INF_PER_CM / (1 + 5.48579909065e-4 / (86.909180529 - 5.48579909065e-4));
         List<QuantumDefects.Series> series = new ArrayList<>();
         series.add(new QuantumDefects.Series(0, 1, List.of(3.1311807, 0.1787), 10));
