@@ -5,7 +5,11 @@
  */
 module org.ritzwerk.engine {
     requires transitive org.ritzwerk.api;
-    requires commons.math3;
+    requires org.apache.commons.math4.legacy;
+    requires org.apache.commons.math4.legacy.core;
+    requires org.apache.commons.math4.legacy.exception;
+    requires org.apache.commons.math4.transform;
+    requires org.apache.commons.numbers.gamma;
 
     exports org.ritzwerk.engine.angular;
     exports org.ritzwerk.engine.calibrate;

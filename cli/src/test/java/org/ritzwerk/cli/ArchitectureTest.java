@@ -70,7 +70,8 @@ class ArchitectureTest {
      * itself instead of calling a job (a problem, a solver and its result), and the computation
      * belongs in the engine, where a library user can call it too.
      */
-    private static final Pattern COMPUTATION = Pattern.compile("^import (static )?(org\\.apache\\.commons\\.math3\\."
+    private static final Pattern COMPUTATION = Pattern.compile(
+            "^import (static )?(org\\.apache\\.commons\\.(math3|math4|numbers)\\."
             + "|org\\.ritzwerk\\.engine\\.(profile|angular)\\."
             + "|org\\.ritzwerk\\.engine\\.hydrogenic\\.(RadialIntegrals|AngularFactors|BetheLogarithms)\\b"
             + "|org\\.ritzwerk\\.engine\\.synth\\.(LineRenderer|GaussLegendre)\\b"
@@ -104,11 +105,12 @@ class ArchitectureTest {
         check(findings, "X.java", 6, "if (e.getMessage().contains(\"no peak\")) {", MESSAGE_TEST, "m");
         check(findings, "X.java", 7, "throw new OptionException(\"--x: \" + e.getMessage(), e);", MESSAGE_TEST, "none");
         check(findings, "X.java", 8, "import org.ritzwerk.engine.profile.Faddeeva;", COMPUTATION, "p");
-        check(findings, "X.java", 9, "import org.apache.commons.math3.special.Gamma;", COMPUTATION, "p");
+        check(findings, "X.java", 9, "import org.apache.commons.numbers.gamma.RegularizedGamma;", COMPUTATION, "p");
         check(findings, "X.java", 10, "import org.ritzwerk.engine.calibrate.DispersionFit;", COMPUTATION, "p");
         check(findings, "X.java", 11, "import org.ritzwerk.engine.calibrate.Calibrator;", COMPUTATION, "none");
         check(findings, "X.java", 12, "import org.ritzwerk.engine.calibrate.DispersionSolution;", COMPUTATION, "none");
-        assertTrue(findings.size() == 8, findings.toString());
+        check(findings, "X.java", 13, "import org.apache.commons.math4.legacy.linear.QRDecomposition;", COMPUTATION, "p");
+        assertTrue(findings.size() == 9, findings.toString());
     }
 
     private static void check(List<String> findings, String file, int line, String text, Pattern pattern,

@@ -1,18 +1,18 @@
 package org.ritzwerk.engine.calibrate;
 
-import org.apache.commons.math3.exception.MathIllegalStateException;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
-import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
-import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
-import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunction;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.RealVector;
-import org.apache.commons.math3.linear.SingularMatrixException;
-import org.apache.commons.math3.special.Erf;
-import org.apache.commons.math3.util.Pair;
+import org.apache.commons.math4.legacy.core.Pair;
+import org.apache.commons.math4.legacy.exception.MathIllegalStateException;
+import org.apache.commons.math4.legacy.fitting.leastsquares.LeastSquaresBuilder;
+import org.apache.commons.math4.legacy.fitting.leastsquares.LeastSquaresOptimizer;
+import org.apache.commons.math4.legacy.fitting.leastsquares.LeastSquaresProblem;
+import org.apache.commons.math4.legacy.fitting.leastsquares.LevenbergMarquardtOptimizer;
+import org.apache.commons.math4.legacy.fitting.leastsquares.MultivariateJacobianFunction;
+import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
+import org.apache.commons.math4.legacy.linear.ArrayRealVector;
+import org.apache.commons.math4.legacy.linear.RealMatrix;
+import org.apache.commons.math4.legacy.linear.RealVector;
+import org.apache.commons.math4.legacy.linear.SingularMatrixException;
+import org.apache.commons.numbers.gamma.ErfDifference;
 
 /**
  * One weighted least-squares fit of K pixel-integrated Gaussians of common width on a local
@@ -24,7 +24,7 @@ import org.apache.commons.math3.util.Pair;
  * where Phi is the standard normal distribution function, so A_k is the flux (counts summed over
  * all pixels), c_k the centre in pixels and s the Gaussian's standard deviation in pixels before
  * integration over the pixel [i - 1/2, i + 1/2). The Jacobian is analytic. Minimised with the
- * Levenberg-Marquardt method of Commons Math 3.6.1 (Mor&eacute;'s MINPACK form: J. J. Mor&eacute;,
+ * Levenberg-Marquardt method of Commons Math 4.0-beta1 (Mor&eacute;'s MINPACK form: J. J. Mor&eacute;,
  * "The Levenberg-Marquardt algorithm: implementation and theory", Lecture Notes in Mathematics
  * 630, 105-116 (1978)) on residuals divided by the pixel standard deviations, so the returned
  * covariance (J^T J)^-1 is that of the weighted problem, unscaled.
@@ -138,9 +138,9 @@ final class GaussianBlendFit {
                 double centre = q[j + 1];
                 double uPlus = (x[i] + 0.5 - centre) / s;
                 double uMinus = (x[i] - 0.5 - centre) / s;
-                // Phi(b) - Phi(a) = (erf(b / sqrt 2) - erf(a / sqrt 2)) / 2; Commons Math's two-argument
-                // erf switches to erfc in the tails, where the plain difference would cancel.
-                double share = 0.5 * Erf.erf(uMinus / SQRT2, uPlus / SQRT2);
+                // Phi(b) - Phi(a) = (erf(b / sqrt 2) - erf(a / sqrt 2)) / 2; Commons Numbers' ErfDifference
+                // switches to erfc in the tails, where the plain difference would cancel.
+                double share = 0.5 * ErfDifference.value(uMinus / SQRT2, uPlus / SQRT2);
                 m += flux * share;
                 if (jacobian != null) {
                     double phiPlus = INV_SQRT_2PI * Math.exp(-0.5 * uPlus * uPlus);
@@ -170,7 +170,7 @@ final class GaussianBlendFit {
         for (int j = FIRST; j < q.length; j += 2) {
             double uPlus = (x + 0.5 - q[j + 1]) / s;
             double uMinus = (x - 0.5 - q[j + 1]) / s;
-            sum += q[j] * 0.5 * Erf.erf(uMinus / SQRT2, uPlus / SQRT2);
+            sum += q[j] * 0.5 * ErfDifference.value(uMinus / SQRT2, uPlus / SQRT2);
         }
         return sum;
     }

@@ -8,7 +8,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.Set;
 import java.util.function.IntToDoubleFunction;
-import org.apache.commons.math3.special.Gamma;
+import org.apache.commons.numbers.gamma.RegularizedGamma;
 import org.ritzwerk.medium.Medium;
 
 /**
@@ -429,7 +429,7 @@ public final class LampMatcher {
         if (beyondFit <= 0) {
             return 1;
         }
-        return Gamma.regularizedGammaP(beyondFit, Math.max(c.chance, 1e-9));
+        return RegularizedGamma.P.value(beyondFit, Math.max(c.chance, 1e-9));
     }
 
     private static int linesWithin(LampLines lines, Prior prior) {

@@ -623,7 +623,7 @@ public final class PeakFinder {
      * one-pixel noise spike fitted by a very narrow Gaussian does not pass for a strong line.
      */
     private static double topPixel(double flux, double s) {
-        return flux * org.apache.commons.math3.special.Erf.erf(0.5 / (s * Math.sqrt(2)));
+        return flux * org.apache.commons.numbers.gamma.Erf.value(0.5 / (s * Math.sqrt(2)));
     }
 
     private static int nearest(double pixel, int n) {

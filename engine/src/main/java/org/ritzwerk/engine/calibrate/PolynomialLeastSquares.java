@@ -1,9 +1,9 @@
 package org.ritzwerk.engine.calibrate;
 
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.QRDecomposition;
-import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
+import org.apache.commons.math4.legacy.linear.ArrayRealVector;
+import org.apache.commons.math4.legacy.linear.QRDecomposition;
+import org.apache.commons.math4.legacy.linear.RealMatrix;
 
 /**
  * Weighted least-squares polynomial y = sum_j a_j x^j in a scaled variable x (package-private

@@ -397,7 +397,7 @@ public final class Identification {
                 return k - 0.5 <= mu ? 1 : 0;
             }
             double z = (k - 0.5 - mu) / Math.sqrt(variance);
-            return 0.5 * org.apache.commons.math3.special.Erf.erfc(z / Math.sqrt(2));
+            return 0.5 * org.apache.commons.numbers.gamma.Erfc.value(z / Math.sqrt(2));
         }
         // f[c] = P(c matched so far) for c < k; f[k] = P(at least k).
         double[] f = new double[k + 1];

@@ -1,12 +1,10 @@
 package org.ritzwerk.engine.synth;
 
-import org.apache.commons.math3.transform.DftNormalization;
-import org.apache.commons.math3.transform.FastFourierTransformer;
-import org.apache.commons.math3.transform.TransformType;
+import org.apache.commons.math4.transform.FastFourierTransform;
 
 /**
  * Discrete Fourier transforms of real sequences of even length N through one complex transform
- * of length N / 2 (Apache Commons Math's {@link FastFourierTransformer#transformInPlace}, which
+ * of length N / 2 (Apache Commons Math's {@link FastFourierTransform#transformInPlace}, which
  * needs a power of two): the even samples go into the real part and the odd samples into the
  * imaginary part, and the two half-length spectra are separated with the symmetry of real
  * sequences' spectra (common practice). With E and O the spectra of the even and odd samples,
@@ -25,6 +23,8 @@ final class RealFft {
     private final double[] cos;
     private final double[] sin;
     private final double[][] work;
+    private final FastFourierTransform forwardTransform;
+    private final FastFourierTransform inverseTransform;
 
     /** @param n the length, a power of two, at least 4 */
     RealFft(int n) {
@@ -41,6 +41,8 @@ final class RealFft {
             sin[k] = Math.sin(angle);
         }
         this.work = new double[2][half];
+        this.forwardTransform = new FastFourierTransform(FastFourierTransform.Norm.STD, false);
+        this.inverseTransform = new FastFourierTransform(FastFourierTransform.Norm.STD, true);
     }
 
     /** @return the length N */
@@ -60,7 +62,7 @@ final class RealFft {
             zr[j] = x[2 * j];
             zi[j] = x[2 * j + 1];
         }
-        FastFourierTransformer.transformInPlace(work, DftNormalization.STANDARD, TransformType.FORWARD);
+        forwardTransform.transformInPlace(work);
         for (int k = 0; k <= half; k++) {
             int a = k == half ? 0 : k;
             int b = k == 0 ? 0 : half - k;
@@ -100,7 +102,7 @@ final class RealFft {
             zr[k] = er - oi;
             zi[k] = ei + or;
         }
-        FastFourierTransformer.transformInPlace(work, DftNormalization.STANDARD, TransformType.INVERSE);
+        inverseTransform.transformInPlace(work);
         for (int j = 0; j < half; j++) {
             x[2 * j] = zr[j];
             x[2 * j + 1] = zi[j];

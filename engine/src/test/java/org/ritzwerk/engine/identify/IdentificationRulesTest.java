@@ -106,12 +106,12 @@ class IdentificationRulesTest {
         assertEquals(0.02, Identification.chanceProbability(List.of(0.1, 0.2), 2, 0.3, 0.25), 1e-15);
         assertEquals(1, Identification.chanceProbability(List.of(0.1, 0.2), 0, 0.3, 0.25));
         // The presence bound's z: 1 - Phi(z) = 0.01 (an independent relation, via erfc).
-        assertEquals(0.01, 0.5 * org.apache.commons.math3.special.Erf.erfc(Identification.Z_99 / Math.sqrt(2)), 1e-15);
+        assertEquals(0.01, 0.5 * org.apache.commons.numbers.gamma.Erfc.value(Identification.Z_99 / Math.sqrt(2)), 1e-15);
         // Past the exact work limit, the normal approximation: 50,000 lines at p = 0.5 and k = 25,000
         // give P(N >= k) = 1 - Phi((k - 1/2 - mu) / sqrt(v)) = 1 - Phi(-0.5 / sqrt(12,500)).
         List<Double> many = java.util.Collections.nCopies(50_000, 0.5);
         double tail = Identification.chanceProbability(many, 25_000, 25_000, 12_500);
-        assertEquals(0.5 * org.apache.commons.math3.special.Erf.erfc(-0.5 / Math.sqrt(12_500) / Math.sqrt(2)), tail,
+        assertEquals(0.5 * org.apache.commons.numbers.gamma.Erfc.value(-0.5 / Math.sqrt(12_500) / Math.sqrt(2)), tail,
                 1e-15);
         // Uniform peaks 1 per nm, a 0.1 nm window: p = 1 - exp(-0.1) within the estimator's spread.
         double[] sorted = new double[2001];
