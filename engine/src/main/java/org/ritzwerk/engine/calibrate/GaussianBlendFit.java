@@ -25,8 +25,8 @@ import org.apache.commons.numbers.gamma.ErfDifference;
  * all pixels), c_k the centre in pixels and s the Gaussian's standard deviation in pixels before
  * integration over the pixel [i - 1/2, i + 1/2). The Jacobian is analytic. Minimised with the
  * Levenberg-Marquardt method of Commons Math 4.0-beta1 (Mor&eacute;'s MINPACK form: J. J. Mor&eacute;,
- * "The Levenberg-Marquardt algorithm: implementation and theory", Lecture Notes in Mathematics
- * 630, 105-116 (1978)) on residuals divided by the pixel standard deviations, so the returned
+ * "The Levenberg-Marquardt algorithm: implementation and theory", in Numerical Analysis, ed.
+ * G. A. Watson, Springer, vol. 630, 105-116 (1978), doi:10.1007/BFb0067700) on residuals divided by the pixel standard deviations, so the returned
  * covariance (J^T J)^-1 is that of the weighted problem, unscaled.
  *
  * <p>Parameter vector: {@code [b0, b1, s, A_1, c_1, ..., A_K, c_K]}.

@@ -238,7 +238,7 @@ public final class Identification {
     static final int DENSITY_NEIGHBOURS = 16;
     /**
      * One-sided 99 % point of the standard normal distribution, Phi^-1(0.99) (scipy.stats.norm.ppf
-     * of Debian python3-scipy 1.17; a test checks 1 - Phi(z) = 0.01 with commons-math's erfc).
+     * of Debian python3-scipy 1.17; a test checks 1 - Phi(z) = 0.01 with Commons Numbers' Erfc).
      */
     static final double Z_99 = 2.3263478740408408;
     /** Above this many (lines x matches) the chance probability uses the normal approximation. */
