@@ -12,6 +12,7 @@ import java.util.Objects;
 public class RitzwerkException extends RuntimeException {
     private static final long serialVersionUID = 1L;
 
+    /** The stable, machine-readable error code, e.g. {@code "quantity.unknown-unit"}. */
     private final String code;
 
     /**

@@ -20,7 +20,18 @@ import org.ritzwerk.constants.PhysicalConstants;
 public record Nucleus(int z, int massNumber, double massKg, int twiceSpin, OptionalDouble magneticMoment,
         OptionalDouble chargeRadius, String source) {
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param z                atomic number
+     * @param massNumber       mass number A
+     * @param massKg           nuclear mass in kg (without electrons); finite, positive
+     * @param twiceSpin        twice the nuclear spin I (0 for spin 0, 1 for I = 1/2, ...)
+     * @param magneticMoment   magnetic dipole moment in nuclear magnetons; empty when unknown
+     *                         (and for spin 0, where it is zero)
+     * @param chargeRadius     rms nuclear charge radius in metres; empty when unknown
+     * @param source           where the values come from, e.g. "mass AME2020; moment Stone 2019"
+     */
     public Nucleus {
         if (z < 1 || z > Elements.MAX_Z) {
             throw new IllegalArgumentException("atomic number must be 1 to " + Elements.MAX_Z + ", got " + z);

@@ -32,7 +32,13 @@ public record Species(int z, int massNumber, int charge) {
     private static final Pattern SHORT =
             Pattern.compile("(?:(\\d+)\\s*)?([A-Z][a-z]?)(?:-(\\d+))?\\s*(?:(\\d*)(\\+)|(\\++))?");
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param z          atomic number, 1 to 118
+     * @param massNumber mass number A, or 0 when not specified
+     * @param charge     charge in units of e, 0 to Z - 1
+     */
     public Species {
         if (z < 1 || z > Elements.MAX_Z) {
             throw new IllegalArgumentException("atomic number must be 1 to " + Elements.MAX_Z + ", got " + z);

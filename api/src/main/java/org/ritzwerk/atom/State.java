@@ -17,7 +17,13 @@ public record State(int n, int l, int twoJ) {
     private static final String LETTERS = "spdfghiklmnoqrtuv";
     private static final Pattern TEXT = Pattern.compile("(\\d{1,4})([a-z])(\\d{1,3})/2");
 
-    /** Validates the quantum numbers. */
+    /**
+     * Validates the quantum numbers.
+     *
+     * @param n    principal quantum number, at least 1
+     * @param l    orbital quantum number, 0 to n - 1
+     * @param twoJ twice j: 2l - 1 or 2l + 1 (1 for l = 0)
+     */
     public State {
         if (n < 1) {
             throw new IllegalArgumentException("principal quantum number n must be >= 1, got " + n);

@@ -16,7 +16,16 @@ import java.util.Objects;
  */
 public record Constant(String name, String symbol, double value, double standardUncertainty, String unit) {
 
-    /** Validates every component. */
+    /**
+     * Validates every component.
+     *
+     * @param name                the constant's name as the edition prints it, e.g. "Rydberg constant"
+     * @param symbol              a short ASCII symbol, e.g. {@code R_inf}
+     * @param value               the value in {@code unit}; finite
+     * @param standardUncertainty the standard uncertainty in {@code unit}; {@code 0} for a constant
+     *                            that is exact by the definition of the SI (2019); finite, not negative
+     * @param unit                the SI unit, e.g. {@code "m^-1"}, {@code "J s"}, or {@code ""} for a pure number
+     */
     public Constant {
         Objects.requireNonNull(name, "name");
         Objects.requireNonNull(symbol, "symbol");

@@ -31,6 +31,14 @@ public record CalibrationRecord(String description, int pixels, DispersionPolyno
     /**
      * Validates and copies.
      *
+     * @param description      free text: what the calibration came from; not null
+     * @param pixels           the detector's pixel count it was made for; at least 2
+     * @param polynomial       the pixel-to-wavelength polynomial
+     * @param rmsNm            root mean square of the used pairs' residuals, nm; NaN when not known
+     * @param rmsPixels        the same in pixels; NaN when not known
+     * @param reducedChiSquare the fit's chi-square per degree of freedom; NaN when not known
+     * @param lines            the fitted pairs, rejected ones included; empty for stored coefficients
+     * @param saturatedLines   pairs left out of the fit because their peaks saturated
      * @throws IllegalArgumentException naming the first unusable component
      */
     public CalibrationRecord {
@@ -101,7 +109,18 @@ public record CalibrationRecord(String description, int pixels, DispersionPolyno
     public record FittedLine(double pixel, double wavelengthNm, double sigmaNm, double residualNm,
             double residualPixels, boolean used, String line) {
 
-        /** Validates. */
+        /**
+         * Validates.
+         *
+         * @param pixel          the peak's centroid, pixels; finite
+         * @param wavelengthNm   the reference line's wavelength, nm; finite
+         * @param sigmaNm        the pair's standard uncertainty used as its weight, nm; positive, or
+         *                       NaN when not known
+         * @param residualNm     reference minus fitted wavelength, nm; finite
+         * @param residualPixels the residual in pixels; finite
+         * @param used           whether the final fit used the pair (false: clipping rejected it)
+         * @param line           the line's label; not null
+         */
         public FittedLine {
             Objects.requireNonNull(line, "line");
             finite("pixel", pixel);
@@ -131,7 +150,13 @@ public record CalibrationRecord(String description, int pixels, DispersionPolyno
      */
     public record SaturatedLine(double pixel, double wavelengthNm, String line) {
 
-        /** Validates. */
+        /**
+         * Validates.
+         *
+         * @param pixel        the peak's centroid, pixels; finite
+         * @param wavelengthNm the line's wavelength, nm, in the polynomial's medium; finite
+         * @param line         the line's label; not null
+         */
         public SaturatedLine {
             Objects.requireNonNull(line, "line");
             if (!Double.isFinite(pixel) || !Double.isFinite(wavelengthNm)) {

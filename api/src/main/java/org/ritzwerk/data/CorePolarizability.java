@@ -13,7 +13,13 @@ import java.util.Objects;
  */
 public record CorePolarizability(double dipoleAu, double quadrupoleAu, String source) {
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param dipoleAu     dipole polarizability alpha_d in atomic units (a0^3); finite, positive
+     * @param quadrupoleAu quadrupole polarizability alpha_q in atomic units (a0^5); finite, not negative
+     * @param source       where the values come from; not blank
+     */
     public CorePolarizability {
         Objects.requireNonNull(source, "source");
         if (!(dipoleAu > 0) || Double.isInfinite(dipoleAu) || !(quadrupoleAu >= 0) || Double.isInfinite(quadrupoleAu)) {

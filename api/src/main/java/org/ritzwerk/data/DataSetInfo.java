@@ -21,7 +21,16 @@ public record DataSetInfo(String id, DataKind kind, String title, String version
 
     private static final Pattern ID = Pattern.compile("[a-z0-9][a-z0-9.-]{0,79}");
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param id         stable id: lower-case letters, digits, dots and dashes, e.g. {@code lamp-ne-i}
+     * @param kind       the kind of data
+     * @param title      one line for people
+     * @param version    the version or edition of the data (e.g. the source's year)
+     * @param provenance where the values come from
+     * @param species    the species covered (empty for nuclear data, which covers isotopes)
+     */
     public DataSetInfo {
         Objects.requireNonNull(id, "id");
         if (!ID.matcher(id).matches()) {

@@ -36,6 +36,14 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
     /**
      * Validates and copies.
      *
+     * @param medium       the medium of the wavelengths
+     * @param centrePixel  the pixel at which x = 0; finite
+     * @param halfRange    pixels per unit of x; finite and positive
+     * @param coefficients a_0 .. a_d in nm; at least two, finite
+     * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, symmetric and finite; or null
+     *                     when unknown
+     * @param lowestPixel  the lowest pixel of the range the polynomial is valid for; finite
+     * @param highestPixel the highest pixel of that range; finite, above the lowest
      * @throws IllegalArgumentException naming the first unusable component
      */
     public DispersionPolynomial {

@@ -37,6 +37,20 @@ public record Isotope(int z, int massNumber, double atomicMass, double atomicMas
     /**
      * Validates the components that must be present, and that the extra ones agree with the rest.
      *
+     * @param z                          atomic number
+     * @param massNumber                 mass number
+     * @param atomicMass                 neutral-atom mass in u
+     * @param atomicMassUncertainty      its standard uncertainty in u
+     * @param twiceSpin                  twice the nuclear spin
+     * @param magneticMoment             magnetic moment in nuclear magnetons (empty for spin 0)
+     * @param chargeRadiusFm             rms charge radius in fm (empty when not tabulated)
+     * @param source                     the source keys of the values, as one text
+     * @param magneticMomentUncertainty  the moment's standard uncertainty in nuclear magnetons;
+     *                                   empty when not given (always when there is no moment)
+     * @param chargeRadiusUncertaintyFm  the radius' standard uncertainty in fm; empty when not given
+     *                                   (always when there is no radius)
+     * @param sourceKeys                 the separate source keys, when the isotope was tabulated with
+     *                                   them; then {@code source} is {@link SourceKeys#render()}
      * @throws IllegalArgumentException when an uncertainty is given without its value, or the
      *                                  source is not the rendered source keys
      */
@@ -120,7 +134,14 @@ public record Isotope(int z, int massNumber, double atomicMass, double atomicMas
      */
     public record SourceKeys(String mass, String moment, String radius) {
 
-        /** Validates: no key holds a comma or a line break (they are CSV fields). */
+        /**
+         * Validates: no key holds a comma or a line break (they are CSV fields).
+         *
+         * @param mass   the key of the mass (e.g. {@code AME2020})
+         * @param moment the key of the moment and spin (e.g. {@code CODATA2018;spin=bodr10}); may be
+         *               empty
+         * @param radius the key of the radius; empty when there is no radius
+         */
         public SourceKeys {
             for (String key : new String[] {mass, moment, radius}) {
                 Objects.requireNonNull(key, "key");

@@ -11,7 +11,12 @@ import java.util.Objects;
  */
 public record IsotopeTable(DataSetInfo info, List<Isotope> isotopes) implements DataSet {
 
-    /** Validates and copies. */
+    /**
+     * Validates and copies.
+     *
+     * @param info     what the table is (kind {@link DataKind#NUCLEAR})
+     * @param isotopes the rows
+     */
     public IsotopeTable {
         Objects.requireNonNull(info, "info");
         if (info.kind() != DataKind.NUCLEAR) {

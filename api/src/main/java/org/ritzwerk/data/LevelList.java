@@ -90,32 +90,50 @@ public final class LevelList implements DataSet {
         return note;
     }
 
-    /** @param i row @return the species */
+    /**
+     * @param i row
+     * @return the species
+     */
     public Species species(int i) {
         return species[i];
     }
 
-    /** @param i row @return the level label */
+    /**
+     * @param i row
+     * @return the level label
+     */
     public String label(int i) {
         return label[i];
     }
 
-    /** @param i row @return the energy above the ground state, in {@link #unit()} */
+    /**
+     * @param i row
+     * @return the energy above the ground state, in {@link #unit()}
+     */
     public double energy(int i) {
         return energy[i];
     }
 
-    /** @param i row @return the standard uncertainty in {@link #unit()}, if stated */
+    /**
+     * @param i row
+     * @return the standard uncertainty in {@link #unit()}, if stated
+     */
     public OptionalDouble uncertainty(int i) {
         return Double.isNaN(uncertainty[i]) ? OptionalDouble.empty() : OptionalDouble.of(uncertainty[i]);
     }
 
-    /** @param i row @return twice j, or -1 when not given */
+    /**
+     * @param i row
+     * @return twice j, or -1 when not given
+     */
     public int twoJ(int i) {
         return twoJ[i];
     }
 
-    /** @param i row @return the row's note, or null */
+    /**
+     * @param i row
+     * @return the row's note, or null
+     */
     public String rowNote(int i) {
         return rowNote[i];
     }

@@ -121,17 +121,26 @@ public final class LineList implements DataSet {
         return note;
     }
 
-    /** @param i row @return the species */
+    /**
+     * @param i row
+     * @return the species
+     */
     public Species species(int i) {
         return species[i];
     }
 
-    /** @param i row @return the position in {@link #unit()} as given */
+    /**
+     * @param i row
+     * @return the position in {@link #unit()} as given
+     */
     public double position(int i) {
         return position[i];
     }
 
-    /** @param i row @return the position as a typed quantity (in its medium for wavelengths) */
+    /**
+     * @param i row
+     * @return the position as a typed quantity (in its medium for wavelengths)
+     */
     public SpectralQuantity positionQuantity(int i) {
         double u = uncertainty[i];
         boolean stated = !Double.isNaN(u);
@@ -147,37 +156,58 @@ public final class LineList implements DataSet {
         }
     }
 
-    /** @param i row @return the standard uncertainty in {@link #unit()}, if stated */
+    /**
+     * @param i row
+     * @return the standard uncertainty in {@link #unit()}, if stated
+     */
     public OptionalDouble uncertainty(int i) {
         return optional(uncertainty[i]);
     }
 
-    /** @param i row @return the relative intensity, if given */
+    /**
+     * @param i row
+     * @return the relative intensity, if given
+     */
     public OptionalDouble intensity(int i) {
         return optional(intensity[i]);
     }
 
-    /** @param i row @return the strength class, or null */
+    /**
+     * @param i row
+     * @return the strength class, or null
+     */
     public StrengthClass strength(int i) {
         return strength[i];
     }
 
-    /** @param i row @return the Einstein A coefficient in s^-1, if given */
+    /**
+     * @param i row
+     * @return the Einstein A coefficient in s^-1, if given
+     */
     public OptionalDouble einsteinA(int i) {
         return optional(einsteinA[i]);
     }
 
-    /** @param i row @return the lower level's label, or null */
+    /**
+     * @param i row
+     * @return the lower level's label, or null
+     */
     public String lower(int i) {
         return lower[i];
     }
 
-    /** @param i row @return the upper level's label, or null */
+    /**
+     * @param i row
+     * @return the upper level's label, or null
+     */
     public String upper(int i) {
         return upper[i];
     }
 
-    /** @param i row @return the row's note, or null */
+    /**
+     * @param i row
+     * @return the row's note, or null
+     */
     public String rowNote(int i) {
         return rowNote[i];
     }

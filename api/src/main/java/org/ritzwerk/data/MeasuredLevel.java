@@ -12,7 +12,13 @@ import org.ritzwerk.atom.State;
  */
 public record MeasuredLevel(State state, double energyPerCm, String source) {
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param state       the state
+     * @param energyPerCm energy above the ground level in cm^-1; finite, not negative
+     * @param source      where the value comes from; not blank
+     */
     public MeasuredLevel {
         Objects.requireNonNull(state, "state");
         Objects.requireNonNull(source, "source");

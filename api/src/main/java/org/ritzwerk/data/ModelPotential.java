@@ -25,14 +25,22 @@ public record ModelPotential(int z, double alphaC, List<Parameters> sets, String
     /**
      * One l's parameters.
      *
-     * @param a1 a0^-1
-     * @param a2 a0^-1
-     * @param a3 a0^-1
-     * @param a4 a0^-2
-     * @param rc cut-off radius r_c, a0
+     * @param a1 a1 of Z_l(r): the decay rate of the (Z - 1) term, a0^-1; finite
+     * @param a2 a2 of Z_l(r): the decay rate of the r (a3 + a4 r) term, a0^-1; finite
+     * @param a3 a3 of Z_l(r), a0^-1; finite
+     * @param a4 a4 of Z_l(r), a0^-2; finite
+     * @param rc cut-off radius r_c of the polarization term, a0; finite, positive
      */
     public record Parameters(double a1, double a2, double a3, double a4, double rc) {
-        /** Validates the parameters. */
+        /**
+         * Validates the parameters.
+         *
+         * @param a1 a1 of Z_l(r): the decay rate of the (Z - 1) term, a0^-1; finite
+         * @param a2 a2 of Z_l(r): the decay rate of the r (a3 + a4 r) term, a0^-1; finite
+         * @param a3 a3 of Z_l(r), a0^-1; finite
+         * @param a4 a4 of Z_l(r), a0^-2; finite
+         * @param rc cut-off radius r_c of the polarization term, a0; finite, positive
+         */
         public Parameters {
             if (!Double.isFinite(a1) || !Double.isFinite(a2) || !Double.isFinite(a3) || !Double.isFinite(a4)
                     || !(rc > 0) || Double.isInfinite(rc)) {
@@ -42,7 +50,14 @@ public record ModelPotential(int z, double alphaC, List<Parameters> sets, String
         }
     }
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param z      nuclear charge Z
+     * @param alphaC core dipole polarizability alpha_c, a0^3
+     * @param sets   parameters (a1, a2, a3, a4, r_c) for l = 0, 1, 2, ...; at least one
+     * @param source where the parameters come from; not blank
+     */
     public ModelPotential {
         Objects.requireNonNull(source, "source");
         sets = List.copyOf(sets);

@@ -44,7 +44,13 @@ public record Provenance(Kind kind, String detail) {
         }
     }
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param kind   published, from memory, computed, measured or supplied by the user
+     * @param detail the citation (authors, year, journal or table), the model that computed the
+     *               values, or the user's own statement; not blank
+     */
     public Provenance {
         Objects.requireNonNull(kind, "kind");
         Objects.requireNonNull(detail, "detail");
@@ -53,17 +59,26 @@ public record Provenance(Kind kind, String detail) {
         }
     }
 
-    /** @param citation authors, year, journal or table @return published provenance */
+    /**
+     * @param citation authors, year, journal or table
+     * @return published provenance
+     */
     public static Provenance published(String citation) {
         return new Provenance(Kind.PUBLISHED, citation);
     }
 
-    /** @param what what was recalled @return from-memory provenance */
+    /**
+     * @param what what was recalled
+     * @return from-memory provenance
+     */
     public static Provenance fromMemory(String what) {
         return new Provenance(Kind.FROM_MEMORY, what);
     }
 
-    /** @param model the model and its settings @return computed provenance */
+    /**
+     * @param model the model and its settings
+     * @return computed provenance
+     */
     public static Provenance computedBy(String model) {
         return new Provenance(Kind.COMPUTED, model);
     }

@@ -43,7 +43,14 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
      */
     public record Series(int l, int twoJ, List<Double> coefficients, int validFromN) {
 
-        /** Validates the parameters. */
+        /**
+         * Validates the parameters.
+         *
+         * @param l            orbital quantum number
+         * @param twoJ         twice j
+         * @param coefficients d0, d2, d4, ... (at least d0); finite
+         * @param validFromN   the lowest n the parameters are meant for
+         */
         public Series {
             if (l < 0 || twoJ < 0 || Math.abs(twoJ - 2 * l) != 1) {
                 throw new IllegalArgumentException("series needs l >= 0 and j = l +- 1/2, got l = " + l + ", 2j = " + twoJ);
@@ -59,7 +66,19 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
         }
     }
 
-    /** Validates the set. */
+    /**
+     * Validates the set.
+     *
+     * @param info               what the set is (kind {@link DataKind#QUANTUM_DEFECTS})
+     * @param species            the atom or ion
+     * @param limitPerCm         ionization limit above the ground state, cm^-1; finite, positive
+     * @param rydbergPerCm       the mass-corrected Rydberg constant R_M of the species, cm^-1; positive
+     * @param series             the series, one per l and j
+     * @param corePolarizability the core's dipole and quadrupole polarizabilities (atomic units), if
+     *                           the set gives them
+     * @param levelsId           the id of the set of measured low levels that goes with this one, if
+     *                           any; a valid data set id ({@link DataSetInfo#isValidId(String)})
+     */
     public QuantumDefects {
         Objects.requireNonNull(info, "info");
         Objects.requireNonNull(species, "species");

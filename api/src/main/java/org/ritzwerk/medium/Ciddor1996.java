@@ -47,7 +47,14 @@ public record Ciddor1996(double temperatureCelsius, double pressurePascal, doubl
 
     private static final double ZERO_CELSIUS_KELVIN = 273.15;
 
-    /** Validates the conditions; each message names the parameter, value, unit and allowed range. */
+    /**
+     * Validates the conditions; each message names the parameter, value, unit and allowed range.
+     *
+     * @param temperatureCelsius       air temperature in degrees Celsius
+     * @param pressurePascal           total air pressure in pascals
+     * @param relativeHumidityPercent  relative humidity in percent (0 to 100)
+     * @param co2PartsPerMillion       CO2 mole fraction in micromoles per mole (ppm)
+     */
     public Ciddor1996 {
         checkRange("temperature", temperatureCelsius, -40, 100, "C");
         checkRange("pressure", pressurePascal, 10_000, 140_000, "Pa");

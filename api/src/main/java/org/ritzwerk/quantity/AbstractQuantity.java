@@ -34,16 +34,27 @@ abstract class AbstractQuantity {
     /** @return the unit {@link #toString()} prints in */
     abstract Unit displayUnit();
 
+    /**
+     * @param unit a unit of this quantity's kind (for a wavelength: in its own medium)
+     * @return the value in that unit
+     * @throws IllegalArgumentException when the unit is of another kind
+     */
     public final double valueIn(Unit unit) {
         unit.requireKind(kind());
         return unit.fromSi(si);
     }
 
+    /**
+     * @param unit a unit of this quantity's kind
+     * @return the standard uncertainty in that unit (not negative), or empty when none was stated
+     * @throws IllegalArgumentException when the unit is of another kind
+     */
     public final OptionalDouble uncertaintyIn(Unit unit) {
         unit.requireKind(kind());
         return Double.isNaN(u) ? OptionalDouble.empty() : OptionalDouble.of(Math.abs(unit.fromSi(u)));
     }
 
+    /** @return {@code true} when a standard uncertainty was stated */
     public final boolean hasUncertainty() {
         return !Double.isNaN(u);
     }
@@ -53,6 +64,13 @@ abstract class AbstractQuantity {
         return u / Math.abs(si);
     }
 
+    /**
+     * @param other  another quantity
+     * @param relTol relative tolerance (dimensionless), not negative
+     * @return {@code true} when both are of the same type (and medium) and their SI values differ by
+     *         at most {@code relTol} times the larger magnitude; uncertainties are not compared
+     * @throws IllegalArgumentException when {@code relTol} is negative or NaN
+     */
     public boolean isCloseTo(Quantity other, double relTol) {
         if (!(relTol >= 0)) {
             throw new IllegalArgumentException("relative tolerance must be >= 0, got " + relTol);

@@ -35,12 +35,18 @@ public final class Energy extends AbstractQuantity implements SpectralQuantity {
         return create(e.si, checkedUncertainty("energy", uncertainty, unit));
     }
 
-    /** @param electronVolts energy in eV; finite @return the energy */
+    /**
+     * @param electronVolts energy in eV; finite
+     * @return the energy
+     */
     public static Energy ofElectronVolts(double electronVolts) {
         return of(electronVolts, Unit.ELECTRONVOLT);
     }
 
-    /** @param joules energy in J; finite @return the energy */
+    /**
+     * @param joules energy in J; finite
+     * @return the energy
+     */
     public static Energy ofJoules(double joules) {
         return of(joules, Unit.JOULE);
     }

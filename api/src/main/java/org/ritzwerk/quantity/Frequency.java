@@ -34,7 +34,10 @@ public final class Frequency extends AbstractQuantity implements SpectralQuantit
         return create(f.si, checkedUncertainty("frequency", uncertainty, unit));
     }
 
-    /** @param hertz frequency in Hz; finite and positive @return the frequency */
+    /**
+     * @param hertz frequency in Hz; finite and positive
+     * @return the frequency
+     */
     public static Frequency ofHertz(double hertz) {
         return of(hertz, Unit.HERTZ);
     }

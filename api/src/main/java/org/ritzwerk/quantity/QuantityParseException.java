@@ -34,7 +34,9 @@ public final class QuantityParseException extends RitzwerkException {
     /** Code: the quantity is of another kind than the caller asked for. */
     public static final String WRONG_KIND = "quantity.wrong-kind";
 
+    /** The whole text that was read. */
     private final String input;
+    /** The 1-based column where the problem starts. */
     private final int column;
 
     /**

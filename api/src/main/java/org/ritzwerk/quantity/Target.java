@@ -15,7 +15,12 @@ import org.ritzwerk.medium.Medium;
  */
 public record Target(Unit unit, Medium medium) {
 
-    /** Validates that a medium is given exactly for wavelength units. */
+    /**
+     * Validates that a medium is given exactly for wavelength units.
+     *
+     * @param unit   the wanted unit
+     * @param medium the wanted medium when {@code unit} is a wavelength unit, else {@code null}
+     */
     public Target {
         Objects.requireNonNull(unit, "unit");
         if ((unit.kind() == Kind.WAVELENGTH) != (medium != null)) {

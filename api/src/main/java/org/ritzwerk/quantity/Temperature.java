@@ -35,7 +35,10 @@ public final class Temperature extends AbstractQuantity implements Quantity {
         return create(t.si, checkedUncertainty("temperature", uncertainty, unit));
     }
 
-    /** @param kelvin temperature in K; finite, not negative @return the temperature */
+    /**
+     * @param kelvin temperature in K; finite, not negative
+     * @return the temperature
+     */
     public static Temperature ofKelvin(double kelvin) {
         return of(kelvin, Unit.KELVIN);
     }

@@ -36,7 +36,10 @@ public final class Wavenumber extends AbstractQuantity implements SpectralQuanti
         return create(w.si, checkedUncertainty("wavenumber", uncertainty, unit));
     }
 
-    /** @param perCentimetre wavenumber in cm^-1; finite @return the wavenumber */
+    /**
+     * @param perCentimetre wavenumber in cm^-1; finite
+     * @return the wavenumber
+     */
     public static Wavenumber ofPerCentimetre(double perCentimetre) {
         return of(perCentimetre, Unit.PER_CENTIMETRE);
     }

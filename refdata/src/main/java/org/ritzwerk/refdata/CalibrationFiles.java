@@ -120,6 +120,10 @@ public final class CalibrationFiles {
     }
 
     /**
+     * @param solution    the fitted solution
+     * @param pixels      the detector's pixel count; at least 2
+     * @param description free text: what it came from
+     * @param lineLabels  one label per fitted pair of the solution
      * @return the file's text (see {@link #write}), with no saturated lines
      */
     public static String toJson(DispersionSolution solution, int pixels, String description, List<String> lineLabels) {
@@ -127,8 +131,12 @@ public final class CalibrationFiles {
     }
 
     /**
-     * @param saturated the pairs left out of the fit because their peaks saturated; written as
-     *                  {@code saturated_lines} when there are any
+     * @param solution    the fitted solution
+     * @param pixels      the detector's pixel count; at least 2
+     * @param description free text: what it came from
+     * @param lineLabels  one label per fitted pair of the solution
+     * @param saturated   the pairs left out of the fit because their peaks saturated; written as
+     *                    {@code saturated_lines} when there are any
      * @return the file's text (see {@link #write})
      */
     public static String toJson(DispersionSolution solution, int pixels, String description, List<String> lineLabels,

@@ -15,7 +15,16 @@ import java.util.Objects;
  */
 public record DataProblem(String source, int line, int column, String code, String reason, String raw) {
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param source the file name or other label of the input
+     * @param line   1-based line number
+     * @param column 1-based column, or 0 when the whole line is meant
+     * @param code   stable error code, e.g. {@code quantity.unknown-unit}
+     * @param reason what is wrong, in words
+     * @param raw    the raw line
+     */
     public DataProblem {
         Objects.requireNonNull(source, "source");
         Objects.requireNonNull(code, "code");

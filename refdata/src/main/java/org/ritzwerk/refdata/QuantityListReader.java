@@ -45,12 +45,6 @@ public final class QuantityListReader {
     }
 
     /**
-     * @param input  the text; read to the end, not closed
-     * @param source file name or label for messages
-     * @return the entries in file order
-     * @throws DataFileException with every problem, when any line is bad or the input too large
-     */
-    /**
      * Reads a list file: strict UTF-8 (a bad byte is reported with its line and column), at most
      * {@link TabularFiles#MAX_BYTES} bytes; a folder or a missing file is refused naming the path.
      *
@@ -62,6 +56,12 @@ public final class QuantityListReader {
         return read(new java.io.StringReader(TabularFiles.read(file)), file.toString());
     }
 
+    /**
+     * @param input  the text; read to the end, not closed
+     * @param source file name or label for messages
+     * @return the entries in file order
+     * @throws DataFileException with every problem, when any line is bad or the input too large
+     */
     public List<Entry> read(Reader input, String source) {
         BufferedReader lines = input instanceof BufferedReader ? (BufferedReader) input : new BufferedReader(input);
         List<Entry> entries = new ArrayList<>();

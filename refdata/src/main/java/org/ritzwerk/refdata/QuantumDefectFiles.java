@@ -75,7 +75,12 @@ public final class QuantumDefectFiles {
      * @param limitProvenance how the ionisation limit was obtained
      */
     public record Content(QuantumDefects defects, Provenance limitProvenance) {
-        /** Validates the components. */
+        /**
+         * Validates the components.
+         *
+         * @param defects         the series, limit, R_M, core polarizabilities and levels id
+         * @param limitProvenance how the ionisation limit was obtained
+         */
         public Content {
             Objects.requireNonNull(defects, "defects");
             Objects.requireNonNull(limitProvenance, "limitProvenance");

@@ -72,6 +72,12 @@ public final class WignerSymbols {
     /**
      * The 6j symbol {@code {j1 j2 j3; j4 j5 j6}}, Racah's formula (Edmonds eq. 6.3.7).
      *
+     * @param twoJ1 2 j1; the symbol is 0 when it is negative
+     * @param twoJ2 2 j2; the symbol is 0 when it is negative
+     * @param twoJ3 2 j3; the symbol is 0 when it is negative
+     * @param twoJ4 2 j4; the symbol is 0 when it is negative
+     * @param twoJ5 2 j5; the symbol is 0 when it is negative
+     * @param twoJ6 2 j6; the symbol is 0 when it is negative
      * @return the symbol with every argument given doubled; 0 when a triangle fails
      * @throws IllegalArgumentException for an argument beyond the factorial table (about 4000)
      */

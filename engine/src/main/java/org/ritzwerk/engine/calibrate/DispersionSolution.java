@@ -442,12 +442,18 @@ public final class DispersionSolution {
         return pixel.length;
     }
 
-    /** @param i pair index @return the pair's pixel */
+    /**
+     * @param i pair index
+     * @return the pair's pixel (the peak's centroid), pixels
+     */
     public double pixel(int i) {
         return pixel[i];
     }
 
-    /** @param i pair index @return the pair's reference wavelength in nm */
+    /**
+     * @param i pair index
+     * @return the pair's reference wavelength in nm
+     */
     public double wavelength(int i) {
         return wavelength[i];
     }
@@ -461,17 +467,26 @@ public final class DispersionSolution {
         return sigma[i];
     }
 
-    /** @param i pair index @return reference minus fitted wavelength, nm */
+    /**
+     * @param i pair index
+     * @return reference minus fitted wavelength, nm
+     */
     public double residualNm(int i) {
         return residual[i];
     }
 
-    /** @param i pair index @return the residual in pixels (nm residual over the local dispersion) */
+    /**
+     * @param i pair index
+     * @return the residual in pixels (nm residual over the local dispersion)
+     */
     public double residualPixels(int i) {
         return residual[i] / Math.abs(dispersionAt(pixel[i]));
     }
 
-    /** @param i pair index @return whether clipping left the pair out of the final fit */
+    /**
+     * @param i pair index
+     * @return whether clipping left the pair out of the final fit
+     */
     public boolean isRejected(int i) {
         return rejected[i];
     }

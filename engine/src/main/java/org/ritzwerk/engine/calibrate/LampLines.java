@@ -75,17 +75,26 @@ public final class LampLines {
         return wavelength.length;
     }
 
-    /** @param i line index @return its wavelength in nm */
+    /**
+     * @param i line index
+     * @return its wavelength in nm
+     */
     public double wavelength(int i) {
         return wavelength[i];
     }
 
-    /** @param i line index @return its relative intensity (1 for every line when none were given) */
+    /**
+     * @param i line index
+     * @return its relative intensity (1 for every line when none were given)
+     */
     public double intensity(int i) {
         return intensity[i];
     }
 
-    /** @param i line index @return its standard uncertainty in nm (0 when none were given) */
+    /**
+     * @param i line index
+     * @return its standard uncertainty in nm (0 when none were given)
+     */
     public double sigma(int i) {
         return sigma[i];
     }

@@ -114,32 +114,50 @@ public final class LampMatch {
         return pixel.length;
     }
 
-    /** @param i pair index @return the index of the pair's peak in the peaks given to the matcher */
+    /**
+     * @param i pair index
+     * @return the index of the pair's peak in the peaks given to the matcher
+     */
     public int peakIndex(int i) {
         return peakIndex[i];
     }
 
-    /** @param i pair index @return the index of the pair's line in the {@link LampLines} */
+    /**
+     * @param i pair index
+     * @return the index of the pair's line in the {@link LampLines}
+     */
     public int lineIndex(int i) {
         return lineIndex[i];
     }
 
-    /** @param i pair index @return the peak's centroid in pixels */
+    /**
+     * @param i pair index
+     * @return the peak's centroid in pixels
+     */
     public double pixel(int i) {
         return pixel[i];
     }
 
-    /** @param i pair index @return the centroid's standard uncertainty in pixels */
+    /**
+     * @param i pair index
+     * @return the centroid's standard uncertainty in pixels
+     */
     public double pixelSigma(int i) {
         return pixelSigma[i];
     }
 
-    /** @param i pair index @return the line's wavelength in nm */
+    /**
+     * @param i pair index
+     * @return the line's wavelength in nm
+     */
     public double wavelength(int i) {
         return wavelength[i];
     }
 
-    /** @param i pair index @return the line's standard uncertainty in nm (0 when the list gave none) */
+    /**
+     * @param i pair index
+     * @return the line's standard uncertainty in nm (0 when the list gave none)
+     */
     public double wavelengthSigma(int i) {
         return wavelengthSigma[i];
     }

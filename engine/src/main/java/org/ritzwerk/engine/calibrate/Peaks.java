@@ -72,22 +72,34 @@ public final class Peaks {
         return pixels;
     }
 
-    /** @param k peak index, 0 .. size - 1 @return the centroid in pixels (pixel i centred at i) */
+    /**
+     * @param k peak index, 0 .. size - 1
+     * @return the centroid in pixels (pixel i centred at i)
+     */
     public double centre(int k) {
         return centre[k];
     }
 
-    /** @param k peak index @return the centroid's standard uncertainty in pixels */
+    /**
+     * @param k peak index
+     * @return the centroid's standard uncertainty in pixels
+     */
     public double centreSigma(int k) {
         return centreSigma[k];
     }
 
-    /** @param k peak index @return the line's flux in counts summed over its pixels, baseline removed */
+    /**
+     * @param k peak index
+     * @return the line's flux in counts summed over its pixels, baseline removed
+     */
     public double flux(int k) {
         return flux[k];
     }
 
-    /** @param k peak index @return the flux's standard uncertainty in counts */
+    /**
+     * @param k peak index
+     * @return the flux's standard uncertainty in counts
+     */
     public double fluxSigma(int k) {
         return fluxSigma[k];
     }
@@ -101,12 +113,18 @@ public final class Peaks {
         return height[k];
     }
 
-    /** @param k peak index @return the fitted Gaussian's FWHM in pixels (before pixel integration) */
+    /**
+     * @param k peak index
+     * @return the fitted Gaussian's FWHM in pixels (before pixel integration)
+     */
     public double fwhm(int k) {
         return fwhm[k];
     }
 
-    /** @param k peak index @return height over the background noise {@link #noise()} at the centroid's pixel */
+    /**
+     * @param k peak index
+     * @return height over the background noise {@link #noise()} at the centroid's pixel
+     */
     public double signalToNoise(int k) {
         return signalToNoise[k];
     }
@@ -121,12 +139,19 @@ public final class Peaks {
         return reducedChiSquare[k];
     }
 
-    /** @param k peak index @param flag a condition @return whether the peak carries it */
+    /**
+     * @param k peak index
+     * @param flag a condition
+     * @return whether the peak carries it
+     */
     public boolean has(int k, PeakFlag flag) {
         return (flags[k] & flag.bit()) != 0;
     }
 
-    /** @param k peak index @return the peak's flags (a new set) */
+    /**
+     * @param k peak index
+     * @return the peak's flags (a new set)
+     */
     public Set<PeakFlag> flags(int k) {
         EnumSet<PeakFlag> set = EnumSet.noneOf(PeakFlag.class);
         for (PeakFlag f : PeakFlag.values()) {

@@ -26,37 +26,58 @@ public final class LevelTable {
         return energy.length;
     }
 
-    /** @param i index @return principal quantum number */
+    /**
+     * @param i the level's index, 0 to {@link #size()} - 1
+     * @return principal quantum number
+     */
     public int n(int i) {
         return n[i];
     }
 
-    /** @param i index @return orbital quantum number */
+    /**
+     * @param i the level's index, 0 to {@link #size()} - 1
+     * @return orbital quantum number
+     */
     public int l(int i) {
         return l[i];
     }
 
-    /** @param i index @return twice j */
+    /**
+     * @param i the level's index, 0 to {@link #size()} - 1
+     * @return twice j
+     */
     public int twoJ(int i) {
         return twoJ[i];
     }
 
-    /** @param i index @return twice F, or -1 when the hyperfine structure is not resolved */
+    /**
+     * @param i the level's index, 0 to {@link #size()} - 1
+     * @return twice F, or -1 when the hyperfine structure is not resolved
+     */
     public int twoF(int i) {
         return twoF[i];
     }
 
-    /** @param i index @return binding energy in J (negative) */
+    /**
+     * @param i the level's index, 0 to {@link #size()} - 1
+     * @return binding energy in J (negative)
+     */
     public double energy(int i) {
         return energy[i];
     }
 
-    /** @param i index @return statistical weight 2F + 1, or 2j + 1 when F is not resolved */
+    /**
+     * @param i the level's index, 0 to {@link #size()} - 1
+     * @return statistical weight 2F + 1, or 2j + 1 when F is not resolved
+     */
     public int statisticalWeight(int i) {
         return twoF[i] >= 0 ? twoF[i] + 1 : twoJ[i] + 1;
     }
 
-    /** @param i index @return the label, e.g. {@code "2p 2P3/2"} or {@code "1s 2S1/2 F=1"} */
+    /**
+     * @param i the level's index, 0 to {@link #size()} - 1
+     * @return the label, e.g. {@code "2p 2P3/2"} or {@code "1s 2S1/2 F=1"}
+     */
     public String label(int i) {
         return Notation.level(n[i], l[i], twoJ[i], twoF[i]);
     }

@@ -66,42 +66,66 @@ public final class LineTable {
         return frequency.length;
     }
 
-    /** @param i index @return upper principal quantum number */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return upper principal quantum number
+     */
     public int upperN(int i) {
         return upper[3 * i];
     }
 
-    /** @param i index @return upper orbital quantum number, -1 for a multiplet */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return upper orbital quantum number, -1 for a multiplet
+     */
     public int upperL(int i) {
         return upper[3 * i + 1];
     }
 
-    /** @param i index @return twice the upper j, -1 for a multiplet */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return twice the upper j, -1 for a multiplet
+     */
     public int upperTwoJ(int i) {
         return upper[3 * i + 2];
     }
 
-    /** @param i index @return lower principal quantum number */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return lower principal quantum number
+     */
     public int lowerN(int i) {
         return lower[3 * i];
     }
 
-    /** @param i index @return lower orbital quantum number, -1 for a multiplet */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return lower orbital quantum number, -1 for a multiplet
+     */
     public int lowerL(int i) {
         return lower[3 * i + 1];
     }
 
-    /** @param i index @return twice the lower j, -1 for a multiplet */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return twice the lower j, -1 for a multiplet
+     */
     public int lowerTwoJ(int i) {
         return lower[3 * i + 2];
     }
 
-    /** @param i index @return the statistical weight of the upper level (2n^2 for a multiplet) */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the statistical weight of the upper level (2n^2 for a multiplet)
+     */
     public int upperWeight(int i) {
         return weight(upper, i);
     }
 
-    /** @param i index @return the statistical weight of the lower level (2n^2 for a multiplet) */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the statistical weight of the lower level (2n^2 for a multiplet)
+     */
     public int lowerWeight(int i) {
         return weight(lower, i);
     }
@@ -110,38 +134,56 @@ public final class LineTable {
         return level[3 * i + 2] >= 0 ? level[3 * i + 2] + 1 : 2 * level[3 * i] * level[3 * i];
     }
 
-    /** @param i index @return the vacuum frequency in Hz */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the vacuum frequency in Hz
+     */
     public double frequency(int i) {
         return frequency[i];
     }
 
-    /** @param i index @return the line strength S in C^2 m^2 */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the line strength S in C^2 m^2
+     */
     public double lineStrength(int i) {
         return strength[i];
     }
 
-    /** @param i index @return the Einstein A coefficient in s^-1 */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the Einstein A coefficient in s^-1
+     */
     public double einsteinA(int i) {
         return einsteinA[i];
     }
 
-    /** @param i index @return the absorption oscillator strength (dimensionless) */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the absorption oscillator strength (dimensionless)
+     */
     public double oscillatorStrength(int i) {
         return oscillatorStrength[i];
     }
 
-    /** @param i index @return the upper level's label, e.g. {@code "3d 2D5/2"} or {@code "n=3"} */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the upper level's label, e.g. {@code "3d 2D5/2"} or {@code "n=3"}
+     */
     public String upperLabel(int i) {
         return Notation.level(upperN(i), upperL(i), upperTwoJ(i), -1);
     }
 
-    /** @param i index @return the lower level's label */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the lower level's label
+     */
     public String lowerLabel(int i) {
         return Notation.level(lowerN(i), lowerL(i), lowerTwoJ(i), -1);
     }
 
     /**
-     * @param i index
+     * @param i the line's index, 0 to {@link #size()} - 1
      * @return the line's name after the spectrum symbol: {@code "Balmer alpha"} or
      *         {@code "109 alpha"} for hydrogen, {@code "4686 (4-3)"} for He II and other ions
      *         (see {@link Notation#line(int, int, int, double)})
@@ -150,13 +192,16 @@ public final class LineTable {
         return Notation.line(z, upperN(i), lowerN(i), PhysicalConstants.C / frequency[i]);
     }
 
-    /** @param i index @return the two shells, upper first, e.g. {@code "4-3"} */
+    /**
+     * @param i the line's index, 0 to {@link #size()} - 1
+     * @return the two shells, upper first, e.g. {@code "4-3"}
+     */
     public String shells(int i) {
         return Notation.shells(upperN(i), lowerN(i));
     }
 
     /**
-     * @param i index
+     * @param i the line's index, 0 to {@link #size()} - 1
      * @return the series name where spectroscopists have one ({@code "Balmer"}; He II
      *         {@code "Fowler"} or {@code "Pickering"}), otherwise empty
      */

@@ -13,7 +13,13 @@ import java.util.Objects;
  */
 public record HyperfineConstants(double aHertz, double bHertz, String source) {
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param aHertz A in Hz; finite (negative for a negative nuclear moment, e.g. K-40)
+     * @param bHertz B in Hz; finite
+     * @param source where the values come from (publication, or {@code from memory}); not blank
+     */
     public HyperfineConstants {
         Objects.requireNonNull(source, "source");
         if (!Double.isFinite(aHertz)) {

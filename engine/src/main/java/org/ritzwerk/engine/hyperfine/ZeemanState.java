@@ -14,7 +14,15 @@ package org.ritzwerk.engine.hyperfine;
  */
 public record ZeemanState(int twoMF, int twoF, double energyHertz, double[] amplitudes) {
 
-    /** Copies the amplitudes. */
+    /**
+     * Copies the amplitudes.
+     *
+     * @param twoMF         2 m_F
+     * @param twoF          2 F of the zero-field level it connects to
+     * @param energyHertz   energy / h relative to the level's hyperfine-free centroid at zero field, Hz
+     * @param amplitudes    the eigenvector in the |m_J m_I> basis: index (m_J + J) (2I + 1) + (m_I + I),
+     *                      m_J and m_I ascending; real, normalised
+     */
     public ZeemanState {
         amplitudes = amplitudes.clone();
     }

@@ -98,13 +98,19 @@ public final class Identification {
         return lines;
     }
 
-    /** @param i peak index @return {@link #MATCHED}, {@link #AMBIGUOUS} or {@link #UNEXPLAINED} */
+    /**
+     * @param i peak index
+     * @return {@link #MATCHED}, {@link #AMBIGUOUS} or {@link #UNEXPLAINED}
+     */
     public int status(int i) {
         int v = linePlusOne[i];
         return v == 0 ? UNEXPLAINED : v > 0 ? MATCHED : AMBIGUOUS;
     }
 
-    /** @param i peak index @return the matched line's index in {@link #lines()}, or -1 */
+    /**
+     * @param i peak index
+     * @return the matched line's index in {@link #lines()}, or -1
+     */
     public int line(int i) {
         return Math.abs(linePlusOne[i]) - 1;
     }
@@ -152,12 +158,18 @@ public final class Identification {
         return found.stream().mapToInt(c -> (int) c[1]).toArray();
     }
 
-    /** @param i peak index @return peak minus line vacuum wavelength, metres; NaN when unexplained */
+    /**
+     * @param i peak index
+     * @return peak minus line vacuum wavelength, metres; NaN when unexplained
+     */
     public double residual(int i) {
         return line(i) < 0 ? Double.NaN : peaks.wavelength(i) - lines.wavelength(line(i));
     }
 
-    /** @param i peak index @return the residual over its scoring uncertainty; NaN when unexplained */
+    /**
+     * @param i peak index
+     * @return the residual over its scoring uncertainty; NaN when unexplained
+     */
     public double normalizedResidual(int i) {
         if (line(i) < 0) {
             return Double.NaN;
@@ -166,7 +178,10 @@ public final class Identification {
         return s > 0 ? residual(i) / s : 0;
     }
 
-    /** @param i peak index @return the cost of the chosen candidate (see {@link Identifier}); NaN when unexplained */
+    /**
+     * @param i peak index
+     * @return the cost of the chosen candidate (see {@link Identifier}); NaN when unexplained
+     */
     public double cost(int i) {
         if (line(i) < 0) {
             return Double.NaN;
@@ -182,7 +197,10 @@ public final class Identification {
         return greedyComponents;
     }
 
-    /** @param wanted a status @return how many peaks have it */
+    /**
+     * @param wanted a status
+     * @return how many peaks have it
+     */
     public int count(int wanted) {
         int count = 0;
         for (int i = 0; i < linePlusOne.length; i++) {

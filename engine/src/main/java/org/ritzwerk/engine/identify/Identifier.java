@@ -105,7 +105,10 @@ public final class Identifier {
         return new Identifier(tolerance, 1, Math.log(DEFAULT_AMBIGUITY_ODDS), 0.3, 1);
     }
 
-    /** @param weight w in the cost, finite and >= 0 @return a copy with that weight */
+    /**
+     * @param weight w in the cost, finite and >= 0
+     * @return a copy with that weight
+     */
     public Identifier withStrengthWeight(double weight) {
         check("strength weight", weight);
         return new Identifier(tolerance, weight, logOdds, strongLine, intensityWeight);
@@ -128,7 +131,10 @@ public final class Identifier {
         return Math.exp(logOdds);
     }
 
-    /** @param threshold relative strength from which a line counts as strong, in (0, 1] @return a copy */
+    /**
+     * @param threshold relative strength from which a line counts as strong, in (0, 1]
+     * @return a copy
+     */
     public Identifier withStrongLineThreshold(double threshold) {
         if (!(threshold > 0 && threshold <= 1)) {
             throw new IllegalArgumentException("strong-line threshold must be in (0, 1], got " + threshold);

@@ -59,32 +59,50 @@ public final class LineCatalog {
         return wavelength.length;
     }
 
-    /** @param j line index @return vacuum wavelength in metres */
+    /**
+     * @param j line index
+     * @return vacuum wavelength in metres
+     */
     public double wavelength(int j) {
         return wavelength[j];
     }
 
-    /** @param j line index @return standard uncertainty in metres (0 when not known) */
+    /**
+     * @param j line index
+     * @return standard uncertainty in metres (0 when not known)
+     */
     public double sigma(int j) {
         return sigma[j];
     }
 
-    /** @param j line index @return relative expected strength in (0, 1] */
+    /**
+     * @param j line index
+     * @return relative expected strength in (0, 1]
+     */
     public double strength(int j) {
         return strength[j];
     }
 
-    /** @param j line index @return the species */
+    /**
+     * @param j line index
+     * @return the species
+     */
     public Species species(int j) {
         return speciesList.get(species[j]);
     }
 
-    /** @param j line index @return index of the species in {@link #speciesList()} */
+    /**
+     * @param j line index
+     * @return index of the species in {@link #speciesList()}
+     */
     public int speciesIndex(int j) {
         return species[j];
     }
 
-    /** @param j line index @return the label given when the line was added */
+    /**
+     * @param j line index
+     * @return the label given when the line was added
+     */
     public String label(int j) {
         return label[j];
     }

@@ -93,17 +93,26 @@ public final class PeakList {
         return wavelength.length;
     }
 
-    /** @param i peak index @return vacuum wavelength in metres */
+    /**
+     * @param i peak index
+     * @return vacuum wavelength in metres
+     */
     public double wavelength(int i) {
         return wavelength[i];
     }
 
-    /** @param i peak index @return standard uncertainty in metres (0 when unknown) */
+    /**
+     * @param i peak index
+     * @return standard uncertainty in metres (0 when unknown)
+     */
     public double sigma(int i) {
         return sigma[i];
     }
 
-    /** @param i peak index @return intensity, NaN when not given */
+    /**
+     * @param i peak index
+     * @return intensity, NaN when not given
+     */
     public double intensity(int i) {
         return intensity[i];
     }

@@ -30,7 +30,12 @@ public record Tolerance(Kind kind, double value) {
         K_SIGMA
     }
 
-    /** Validates the value. */
+    /**
+     * Validates the value.
+     *
+     * @param kind  which model
+     * @param value the half-width in metres, the fraction, or k; finite and positive
+     */
     public Tolerance {
         if (kind == null) {
             throw new IllegalArgumentException("tolerance kind is required");
@@ -41,17 +46,26 @@ public record Tolerance(Kind kind, double value) {
         }
     }
 
-    /** @param metres half-width in metres of vacuum wavelength @return the tolerance */
+    /**
+     * @param metres half-width in metres of vacuum wavelength
+     * @return the tolerance
+     */
     public static Tolerance absolute(double metres) {
         return new Tolerance(Kind.ABSOLUTE, metres);
     }
 
-    /** @param fraction half-width as a fraction of the wavelength @return the tolerance */
+    /**
+     * @param fraction half-width as a fraction of the wavelength
+     * @return the tolerance
+     */
     public static Tolerance relative(double fraction) {
         return new Tolerance(Kind.RELATIVE, fraction);
     }
 
-    /** @param k the number of combined standard uncertainties @return the tolerance */
+    /**
+     * @param k the number of combined standard uncertainties
+     * @return the tolerance
+     */
     public static Tolerance kSigma(double k) {
         return new Tolerance(Kind.K_SIGMA, k);
     }

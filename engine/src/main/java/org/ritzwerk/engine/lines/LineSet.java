@@ -74,7 +74,14 @@ public final class LineSet {
      */
     public record Source(String model, Optional<DataSetInfo> dataSet) {
 
-        /** Validates the components. */
+        /**
+         * Validates the components.
+         *
+         * @param model   the model or kind of source: a one-electron tier id ({@code bohr},
+         *                {@code dirac}, {@code qed}, {@code hyperfine}), {@code quantum-defect} for
+         *                alkali atoms, {@code line-list} for line lists, or a caller's own label
+         * @param dataSet the data set the lines or the model's parameters come from, where one is known
+         */
         public Source {
             Objects.requireNonNull(model, "model");
             Objects.requireNonNull(dataSet, "dataSet");
@@ -349,7 +356,10 @@ public final class LineSet {
         return vacuum.length == 0;
     }
 
-    /** @param i line index @return the species */
+    /**
+     * @param i line index
+     * @return the species
+     */
     public Species species(int i) {
         return speciesList.get(species[i]);
     }
@@ -359,7 +369,10 @@ public final class LineSet {
         return speciesList;
     }
 
-    /** @param i line index @return where the line comes from */
+    /**
+     * @param i line index
+     * @return where the line comes from
+     */
     public Source source(int i) {
         return sourceList.get(source[i]);
     }
@@ -375,52 +388,82 @@ public final class LineSet {
         return name[i];
     }
 
-    /** @param i line index @return the upper level's label ({@code 3d 2D5/2}, {@code n=3}), where known */
+    /**
+     * @param i line index
+     * @return the upper level's label ({@code 3d 2D5/2}, {@code n=3}), where known
+     */
     public Optional<String> upperLabel(int i) {
         return Optional.ofNullable(upperLabel[i]);
     }
 
-    /** @param i line index @return the lower level's label, where known */
+    /**
+     * @param i line index
+     * @return the lower level's label, where known
+     */
     public Optional<String> lowerLabel(int i) {
         return Optional.ofNullable(lowerLabel[i]);
     }
 
-    /** @param i line index @return the upper principal quantum number, where known */
+    /**
+     * @param i line index
+     * @return the upper principal quantum number, where known
+     */
     public OptionalInt upperN(int i) {
         return quantum(6 * i);
     }
 
-    /** @param i line index @return the upper orbital quantum number l, where known (absent for a multiplet) */
+    /**
+     * @param i line index
+     * @return the upper orbital quantum number l, where known (absent for a multiplet)
+     */
     public OptionalInt upperL(int i) {
         return quantum(6 * i + 1);
     }
 
-    /** @param i line index @return twice the upper j, where known (absent for a multiplet) */
+    /**
+     * @param i line index
+     * @return twice the upper j, where known (absent for a multiplet)
+     */
     public OptionalInt upperTwoJ(int i) {
         return quantum(6 * i + 2);
     }
 
-    /** @param i line index @return the lower principal quantum number, where known */
+    /**
+     * @param i line index
+     * @return the lower principal quantum number, where known
+     */
     public OptionalInt lowerN(int i) {
         return quantum(6 * i + 3);
     }
 
-    /** @param i line index @return the lower orbital quantum number l, where known */
+    /**
+     * @param i line index
+     * @return the lower orbital quantum number l, where known
+     */
     public OptionalInt lowerL(int i) {
         return quantum(6 * i + 4);
     }
 
-    /** @param i line index @return twice the lower j, where known */
+    /**
+     * @param i line index
+     * @return twice the lower j, where known
+     */
     public OptionalInt lowerTwoJ(int i) {
         return quantum(6 * i + 5);
     }
 
-    /** @param i line index @return the upper level as n l j, where all three are known */
+    /**
+     * @param i line index
+     * @return the upper level as n l j, where all three are known
+     */
     public Optional<State> upperState(int i) {
         return state(6 * i);
     }
 
-    /** @param i line index @return the lower level as n l j, where all three are known */
+    /**
+     * @param i line index
+     * @return the lower level as n l j, where all three are known
+     */
     public Optional<State> lowerState(int i) {
         return state(6 * i + 3);
     }
@@ -434,12 +477,18 @@ public final class LineSet {
                 : Optional.of(State.of(levels[k], levels[k + 1], levels[k + 2]));
     }
 
-    /** @param i line index @return the vacuum wavelength in metres */
+    /**
+     * @param i line index
+     * @return the vacuum wavelength in metres
+     */
     public double vacuumWavelengthMetres(int i) {
         return vacuum[i];
     }
 
-    /** @param i line index @return the vacuum wavelength in nm (metres times 1e9) */
+    /**
+     * @param i line index
+     * @return the vacuum wavelength in nm (metres times 1e9)
+     */
     public double vacuumWavelengthNm(int i) {
         return vacuum[i] * 1e9;
     }
@@ -453,7 +502,10 @@ public final class LineSet {
                 : Wavelength.of(vacuum[i], sigma[i], Unit.METRE, Medium.vacuum());
     }
 
-    /** @param i line index @return the standard uncertainty of the vacuum wavelength in metres, where known */
+    /**
+     * @param i line index
+     * @return the standard uncertainty of the vacuum wavelength in metres, where known
+     */
     public OptionalDouble vacuumWavelengthUncertaintyMetres(int i) {
         return optional(sigma[i]);
     }
@@ -468,42 +520,66 @@ public final class LineSet {
         return medium.fromVacuum(vacuum[i]);
     }
 
-    /** @param i line index @return the vacuum frequency in Hz */
+    /**
+     * @param i line index
+     * @return the vacuum frequency in Hz
+     */
     public double frequencyHz(int i) {
         return frequency[i];
     }
 
-    /** @param i line index @return the frequency as a typed quantity */
+    /**
+     * @param i line index
+     * @return the frequency as a typed quantity
+     */
     public Frequency frequency(int i) {
         return Frequency.ofHertz(frequency[i]);
     }
 
-    /** @param i line index @return the vacuum wavenumber in cm^-1, {@code nu / c / 100} */
+    /**
+     * @param i line index
+     * @return the vacuum wavenumber in cm^-1, {@code nu / c / 100}
+     */
     public double wavenumberPerCm(int i) {
         return frequency[i] / PhysicalConstants.C / 100;
     }
 
-    /** @param i line index @return the Einstein A coefficient in s^-1, where known */
+    /**
+     * @param i line index
+     * @return the Einstein A coefficient in s^-1, where known
+     */
     public OptionalDouble einsteinA(int i) {
         return optional(einsteinA[i]);
     }
 
-    /** @param i line index @return the absorption oscillator strength f, where known */
+    /**
+     * @param i line index
+     * @return the absorption oscillator strength f, where known
+     */
     public OptionalDouble oscillatorStrength(int i) {
         return optional(oscillatorStrength[i]);
     }
 
-    /** @param i line index @return the line strength S in atomic units (e a0)^2, where known */
+    /**
+     * @param i line index
+     * @return the line strength S in atomic units (e a0)^2, where known
+     */
     public OptionalDouble lineStrengthAtomicUnits(int i) {
         return optional(lineStrength[i]);
     }
 
-    /** @param i line index @return the upper level's statistical weight, where known (2 n^2 for a multiplet) */
+    /**
+     * @param i line index
+     * @return the upper level's statistical weight, where known (2 n^2 for a multiplet)
+     */
     public OptionalInt upperWeight(int i) {
         return upperWeight[i] == 0 ? OptionalInt.empty() : OptionalInt.of(upperWeight[i]);
     }
 
-    /** @param i line index @return the lower level's statistical weight, where known */
+    /**
+     * @param i line index
+     * @return the lower level's statistical weight, where known
+     */
     public OptionalInt lowerWeight(int i) {
         return lowerWeight[i] == 0 ? OptionalInt.empty() : OptionalInt.of(lowerWeight[i]);
     }
@@ -517,17 +593,26 @@ public final class LineSet {
         return optional(upperEnergy[i]);
     }
 
-    /** @param i line index @return the relative intensity a line list gives, where given */
+    /**
+     * @param i line index
+     * @return the relative intensity a line list gives, where given
+     */
     public OptionalDouble relativeIntensity(int i) {
         return optional(intensity[i]);
     }
 
-    /** @param i line index @return the strength class a line list gives, where given */
+    /**
+     * @param i line index
+     * @return the strength class a line list gives, where given
+     */
     public Optional<StrengthClass> strengthClass(int i) {
         return Optional.ofNullable(strengthClass[i]);
     }
 
-    /** @param i line index @return whether the line is a multiplet (a blend of unresolved components) */
+    /**
+     * @param i line index
+     * @return whether the line is a multiplet (a blend of unresolved components)
+     */
     public boolean isMultiplet(int i) {
         return multiplet[i];
     }
@@ -802,12 +887,18 @@ public final class LineSet {
             return this;
         }
 
-        /** @param level the upper level n l j @return this builder */
+        /**
+         * @param level the upper level n l j
+         * @return this builder
+         */
         public Builder upper(State level) {
             return level(0, level.n(), level.l(), level.twoJ());
         }
 
-        /** @param level the lower level n l j @return this builder */
+        /**
+         * @param level the lower level n l j
+         * @return this builder
+         */
         public Builder lower(State level) {
             return level(3, level.n(), level.l(), level.twoJ());
         }
@@ -840,25 +931,37 @@ public final class LineSet {
             return this;
         }
 
-        /** @param metres the vacuum wavelength's standard uncertainty, finite, not negative @return this builder */
+        /**
+         * @param metres the vacuum wavelength's standard uncertainty, finite, not negative
+         * @return this builder
+         */
         public Builder uncertainty(double metres) {
             sigma[last()] = notNegative("wavelength uncertainty (m)", metres);
             return this;
         }
 
-        /** @param perSecond Einstein A, s^-1, finite, not negative @return this builder */
+        /**
+         * @param perSecond Einstein A, s^-1, finite, not negative
+         * @return this builder
+         */
         public Builder einsteinA(double perSecond) {
             einsteinA[last()] = notNegative("Einstein A (s^-1)", perSecond);
             return this;
         }
 
-        /** @param f absorption oscillator strength, finite, not negative @return this builder */
+        /**
+         * @param f absorption oscillator strength, finite, not negative
+         * @return this builder
+         */
         public Builder oscillatorStrength(double f) {
             oscillatorStrength[last()] = notNegative("oscillator strength", f);
             return this;
         }
 
-        /** @param atomicUnits line strength S in (e a0)^2, finite, not negative @return this builder */
+        /**
+         * @param atomicUnits line strength S in (e a0)^2, finite, not negative
+         * @return this builder
+         */
         public Builder lineStrength(double atomicUnits) {
             lineStrength[last()] = notNegative("line strength ((e a0)^2)", atomicUnits);
             return this;
@@ -879,19 +982,28 @@ public final class LineSet {
             return this;
         }
 
-        /** @param joules the upper level's energy above the ground level, finite, not negative @return this builder */
+        /**
+         * @param joules the upper level's energy above the ground level, finite, not negative
+         * @return this builder
+         */
         public Builder upperEnergy(double joules) {
             upperEnergy[last()] = notNegative("upper energy (J)", joules);
             return this;
         }
 
-        /** @param relative relative intensity, finite, not negative @return this builder */
+        /**
+         * @param relative relative intensity, finite, not negative
+         * @return this builder
+         */
         public Builder relativeIntensity(double relative) {
             intensity[last()] = notNegative("relative intensity", relative);
             return this;
         }
 
-        /** @param c the strength class, or null @return this builder */
+        /**
+         * @param c the strength class, or null
+         * @return this builder
+         */
         public Builder strengthClass(StrengthClass c) {
             strengthClass[last()] = c;
             return this;

@@ -368,7 +368,15 @@ public final class BalmerPlasmaFit {
     public record Result(List<Line> lines, Optional<Temperature> temperature, Optional<Density> density,
             List<String> notes, BalmerPlasmaFit settings) {
 
-        /** Copies the lists. */
+        /**
+         * Copies the lists.
+         *
+         * @param lines       the fitted lines, ascending in upper n
+         * @param temperature the Boltzmann-plot temperature, when three or more lines were fitted
+         * @param density     the Stark density, when H-beta or H-alpha was fitted within the fit's range
+         * @param notes       why a line, the temperature or the density is missing
+         * @param settings    the solver used
+         */
         public Result {
             lines = List.copyOf(lines);
             notes = List.copyOf(notes);

@@ -54,7 +54,14 @@ public final class IsotopePairs {
      */
     public record Merged(LineCatalog lines, Set<String> merged, Species light, Species heavy) {
 
-        /** Copies the set. */
+        /**
+         * Copies the set.
+         *
+         * @param lines  the catalog: a merged pair keeps the light isotope's species and label
+         * @param merged the labels of the merged pairs
+         * @param light  the light isotope
+         * @param heavy  the heavy isotope
+         */
         public Merged {
             merged = Set.copyOf(merged);
         }

@@ -88,7 +88,15 @@ public final class PlasmaEstimate {
      */
     public record Peaks(double[] positions, Unit unit, Medium medium, double[] intensities, double[] widths) {
 
-        /** Checks the lengths. */
+        /**
+         * Checks the lengths.
+         *
+         * @param positions   peak positions
+         * @param unit        their unit
+         * @param medium      their medium (null for non-wavelength units)
+         * @param intensities peak intensities (photon counts or proportional), NaN where unknown
+         * @param widths      peak FWHMs in {@code unit}, NaN where unknown
+         */
         public Peaks {
             Objects.requireNonNull(unit, "unit");
             if (intensities.length != positions.length || widths.length != positions.length) {

@@ -162,7 +162,14 @@ public final class FastLineRenderer {
      * As {@link #render(double[], double[], double[], double[], double[])}; the result is the same
      * for any thread count, bit for bit (the work runs on the caller's thread).
      *
-     * @param threads number of threads, 1 to 1024
+     * @param position     line centres in the grid's unit
+     * @param flux         integrated line fluxes (any unit, e.g. photons), finite and not negative
+     * @param gaussianFwhm Gaussian (Doppler) FWHMs before the instrument, in the grid's unit, not
+     *                     negative
+     * @param lorentzFwhm  Lorentzian FWHMs in the grid's unit, not negative
+     * @param out          pixel fluxes in the unit of {@code flux}, one per pixel, added to
+     * @param threads      number of threads, 1 to 1024
+     * @throws IllegalArgumentException as the single-threaded form, or for a bad thread count
      */
     public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out,
             int threads) {

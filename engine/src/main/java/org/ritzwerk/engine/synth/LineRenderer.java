@@ -81,7 +81,13 @@ public final class LineRenderer {
      * As {@link #render(double[], double[], double[], double[], double[])}, on {@code threads}
      * threads, with the same result bit for bit.
      *
-     * @param threads number of threads, 1 to 1024; 1 renders on the caller's thread
+     * @param position     line centres in the grid's unit
+     * @param flux         integrated line fluxes (any unit, e.g. photons), finite and not negative
+     * @param gaussianFwhm Gaussian (Doppler) FWHMs before the instrument, in the grid's unit, not
+     *                     negative
+     * @param lorentzFwhm  Lorentzian FWHMs in the grid's unit, not negative
+     * @param out          pixel fluxes in the unit of {@code flux}, one per pixel, added to
+     * @param threads      number of threads, 1 to 1024; 1 renders on the caller's thread
      * @throws IllegalArgumentException as the single-threaded form, or for a bad thread count
      */
     public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out,
@@ -93,7 +99,15 @@ public final class LineRenderer {
      * As {@link #render(double[], double[], double[], double[], double[], int)}, telling
      * {@code progress} (on the caller's thread) the fraction of pixels done as blocks finish.
      *
-     * @param progress told the fraction done, 0 to 1, in order; null for none
+     * @param position     line centres in the grid's unit
+     * @param flux         integrated line fluxes (any unit, e.g. photons), finite and not negative
+     * @param gaussianFwhm Gaussian (Doppler) FWHMs before the instrument, in the grid's unit, not
+     *                     negative
+     * @param lorentzFwhm  Lorentzian FWHMs in the grid's unit, not negative
+     * @param out          pixel fluxes in the unit of {@code flux}, one per pixel, added to
+     * @param threads      number of threads, 1 to 1024; 1 renders on the caller's thread
+     * @param progress     told the fraction done, 0 to 1, in order; null for none
+     * @throws IllegalArgumentException as the single-threaded form, or for a bad thread count
      */
     public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out,
             int threads, DoubleConsumer progress) {

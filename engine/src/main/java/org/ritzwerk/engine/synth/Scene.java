@@ -251,27 +251,42 @@ public final class Scene {
             return position.length;
         }
 
-        /** @return line centre in nm in the axis medium, Doppler-shifted */
+        /**
+         * @param i the line's index, 0 to {@link #size()} - 1
+         * @return line centre in nm in the axis medium, Doppler-shifted
+         */
         public double position(int i) {
             return position[i];
         }
 
-        /** @return photon rate before scaling (per unit of the emitter's abundance) */
+        /**
+         * @param i the line's index, 0 to {@link #size()} - 1
+         * @return photon rate before scaling (per unit of the emitter's abundance)
+         */
         public double photons(int i) {
             return photons[i];
         }
 
-        /** @return Doppler FWHM in nm (the instrument's is added in quadrature when rendering) */
+        /**
+         * @param i the line's index, 0 to {@link #size()} - 1
+         * @return Doppler FWHM in nm (the instrument's is added in quadrature when rendering)
+         */
         public double gaussianFwhm(int i) {
             return gaussian[i];
         }
 
-        /** @return Lorentzian FWHM in nm: collisional + natural + Stark */
+        /**
+         * @param i the line's index, 0 to {@link #size()} - 1
+         * @return Lorentzian FWHM in nm: collisional + natural + Stark
+         */
         public double lorentzFwhm(int i) {
             return lorentz[i];
         }
 
-        /** @return e.g. {@code H I H-alpha} or the line list's label */
+        /**
+         * @param i the line's index, 0 to {@link #size()} - 1
+         * @return e.g. {@code H I H-alpha} or the line list's label
+         */
         public String label(int i) {
             return label[i];
         }
@@ -448,7 +463,10 @@ public final class Scene {
             return this;
         }
 
-        /** @param kelvin excitation and kinetic temperature, positive, below 1e9 K */
+        /**
+         * @param kelvin excitation and kinetic temperature in K, positive, below 1e9 K
+         * @return this builder
+         */
         public Builder temperature(double kelvin) {
             if (!(kelvin > 0 && kelvin < 1e9)) {
                 throw new IllegalArgumentException("temperature must be positive and below 1e9 K, got " + kelvin);
@@ -457,7 +475,10 @@ public final class Scene {
             return this;
         }
 
-        /** @param perCubicMetre electron density, positive, up to {@link BalmerStark#MAX_DENSITY} */
+        /**
+         * @param perCubicMetre electron density in m^-3, positive, up to {@link BalmerStark#MAX_DENSITY}
+         * @return this builder
+         */
         public Builder electronDensity(double perCubicMetre) {
             if (!(perCubicMetre > 0 && perCubicMetre <= BalmerStark.MAX_DENSITY)) {
                 throw new IllegalArgumentException("electron density must be positive and at most "
@@ -467,7 +488,10 @@ public final class Scene {
             return this;
         }
 
-        /** @param metresPerSecond line-of-sight velocity, positive away, below c / 10 */
+        /**
+         * @param metresPerSecond line-of-sight velocity in m/s, positive away, below c / 10
+         * @return this builder
+         */
         public Builder velocity(double metresPerSecond) {
             if (!(Math.abs(metresPerSecond) < 0.1 * PhysicalConstants.C)) {
                 throw new IllegalArgumentException("velocity must be below a tenth of the speed of light, got "
@@ -477,7 +501,10 @@ public final class Scene {
             return this;
         }
 
-        /** @param nanometres Lorentzian FWHM given to every line, not negative */
+        /**
+         * @param nanometres Lorentzian FWHM in nm given to every line, not negative
+         * @return this builder
+         */
         public Builder collisionalFwhm(double nanometres) {
             if (!(nanometres >= 0) || Double.isInfinite(nanometres)) {
                 throw new IllegalArgumentException("collisional FWHM must be finite and not negative, got "
@@ -487,13 +514,19 @@ public final class Scene {
             return this;
         }
 
-        /** @param on add natural widths of the one-electron emitters' lines */
+        /**
+         * @param on add natural widths of the one-electron emitters' lines
+         * @return this builder
+         */
         public Builder naturalWidths(boolean on) {
             this.natural = on;
             return this;
         }
 
-        /** @param n highest upper n and the partition functions' cutoff, 2 .. {@link HydrogenLikeLines#MAX_N} */
+        /**
+         * @param n highest upper n and the partition functions' cutoff, 2 .. {@link HydrogenLikeLines#MAX_N}
+         * @return this builder
+         */
         public Builder nMax(int n) {
             if (n < 2 || n > HydrogenLikeLines.MAX_N) {
                 throw new IllegalArgumentException("nMax must be 2 to " + HydrogenLikeLines.MAX_N + ", got " + n);
@@ -502,19 +535,28 @@ public final class Scene {
             return this;
         }
 
-        /** @param axisMedium the medium of the grid's wavelengths */
+        /**
+         * @param axisMedium the medium of the grid's wavelengths
+         * @return this builder
+         */
         public Builder medium(Medium axisMedium) {
             this.medium = axisMedium;
             return this;
         }
 
-        /** @param response the spectrometer's Gaussian response */
+        /**
+         * @param response the spectrometer's Gaussian response
+         * @return this builder
+         */
         public Builder instrument(Instrument response) {
             this.instrument = response;
             return this;
         }
 
-        /** @param fwhms rendering window half-width in Voigt FWHMs, see {@link LineRenderer} */
+        /**
+         * @param fwhms rendering window half-width in Voigt FWHMs, see {@link LineRenderer}
+         * @return this builder
+         */
         public Builder window(double fwhms) {
             this.window = fwhms;
             return this;
@@ -530,7 +572,10 @@ public final class Scene {
             return this;
         }
 
-        /** @param counts expected counts in the brightest pixel of the line spectrum, positive */
+        /**
+         * @param counts expected counts in the brightest pixel of the line spectrum, positive
+         * @return this builder
+         */
         public Builder peakCounts(double counts) {
             positive("peak counts", counts);
             this.peakCounts = counts;
