@@ -95,13 +95,16 @@ public final class AlkaliAtom {
     private final State ground;
     private final double step;
     private final ModelPotential model;
+    /** alpha_d and r_c of the core-polarized dipole operator, or null for the bare r. */
+    private final ModelPotential dipoleCore;
     /** Wavefunctions computed so far (they are immutable); cleared when it reaches its bound. */
     private final Map<State, RadialWavefunction> wavefunctions = new java.util.concurrent.ConcurrentHashMap<>();
 
     private AlkaliAtom(QuantumDefects defects, List<MeasuredLevel> measuredList, CorePolarizability core, double step,
-            ModelPotential model) {
+            ModelPotential model, ModelPotential dipoleCore) {
         this.defects = defects;
         this.model = model;
+        this.dipoleCore = dipoleCore;
         this.measuredList = List.copyOf(measuredList);
         this.core = core;
         this.step = step;
@@ -155,7 +158,7 @@ public final class AlkaliAtom {
     public static AlkaliAtom of(QuantumDefects defects, List<MeasuredLevel> measured, CorePolarizability core) {
         Objects.requireNonNull(defects, "defects");
         Objects.requireNonNull(measured, "measured");
-        return new AlkaliAtom(defects, measured, core, DEFAULT_STEP, null);
+        return new AlkaliAtom(defects, measured, core, DEFAULT_STEP, null, null);
     }
 
     /**
@@ -166,7 +169,7 @@ public final class AlkaliAtom {
         if (!(newStep >= 1e-4 && newStep <= 0.1)) {
             throw new IllegalArgumentException("Numerov step must be 1e-4 to 0.1, got " + newStep);
         }
-        return new AlkaliAtom(defects, measuredList, core, newStep, model);
+        return new AlkaliAtom(defects, measuredList, core, newStep, model, dipoleCore);
     }
 
     /**
@@ -179,7 +182,41 @@ public final class AlkaliAtom {
      *         the core and the outer region, where it tends to -1/r
      */
     public AlkaliAtom withModelPotential(ModelPotential potential) {
-        return new AlkaliAtom(defects, measuredList, core, step, potential);
+        return new AlkaliAtom(defects, measuredList, core, step, potential, dipoleCore);
+    }
+
+    /**
+     * The core-polarization correction of the dipole operator: every radial dipole integral (matrix
+     * elements, Einstein A, lifetimes, black-body rates) uses
+     * <pre>
+     *   r  -&gt;  r [1 - (alpha_d / r^3) (1 - exp(-(r / r_c)^3))]
+     * </pre>
+     * instead of r: the valence electron's field polarizes the core, whose induced dipole
+     * {@code -alpha_d r / r^3} opposes the electron's own (S. Hameed, A. Herzenberg and M. G. James,
+     * J. Phys. B 1, 822 (1968); with l-dependent model potentials: M. Marinescu, H. R. Sadeghpour
+     * and A. Dalgarno, Phys. Rev. A 49, 982 (1994)). Inside r_c the cut-off switches the correction
+     * off; far outside it the factor tends to 1 as alpha_d / r^3, so integrals between Rydberg states
+     * (which come from r ~ n*^2) barely move while the resonance lines, whose integrand peaks
+     * at a few a0, are reduced by several per cent.
+     *
+     * <p>The parameters are the model potential's: alpha_d = its {@code alphaC} (a0^3), and for a
+     * pair of orbital quantum numbers l, l' the cut-off {@code r_c = (r_c,l + r_c,l') / 2}, the mean
+     * of its two radii (a0) (our choice: the correction is one operator between two states, and
+     * the published r_c belong to single l; the mean keeps the operator symmetric). It applies to
+     * Coulomb-approximation and model-potential wavefunctions alike.
+     *
+     * @param parameters the source of alpha_d and r_c (usually the same Marinescu et al. set as
+     *                   {@link #withModelPotential(ModelPotential)} takes), or null for the bare
+     *                   dipole operator r
+     * @return the same atom with that dipole operator
+     */
+    public AlkaliAtom withCorePolarizedDipole(ModelPotential parameters) {
+        return new AlkaliAtom(defects, measuredList, core, step, model, parameters);
+    }
+
+    /** @return the parameters of the core-polarized dipole operator, if used (else the bare r) */
+    public Optional<ModelPotential> corePolarizedDipole() {
+        return Optional.ofNullable(dipoleCore);
     }
 
     /** @return the model potential the wavefunctions use, if any (else the Coulomb approximation) */
@@ -469,10 +506,25 @@ public final class AlkaliAtom {
     /**
      * @param a first state
      * @param b second state
-     * @return the radial dipole integral {@code <a|r|b>} in a0
+     * @return the radial dipole integral {@code <a|r|b>} in a0, with the core-polarized operator
+     *         when {@link #withCorePolarizedDipole(ModelPotential)} set one (else the bare r, the same
+     *         as {@code radialIntegralBohr(a, b, 1)})
      */
     public double radialDipoleBohr(State a, State b) {
-        return radialIntegralBohr(a, b, 1);
+        return dipoleBohr(wavefunction(a), wavefunction(b));
+    }
+
+    /** The radial dipole integral of two wavefunctions in a0, with the dipole operator of the atom. */
+    private double dipoleBohr(RadialWavefunction a, RadialWavefunction b) {
+        double scale = lengthScale();
+        if (dipoleCore == null) {
+            return RadialWavefunction.overlap(a, b, 1) * scale;
+        }
+        int la = a.state().l();
+        int lb = b.state().l();
+        double cutoff = (dipoleCore.parametersFor(la).rc() + dipoleCore.parametersFor(lb).rc()) / 2;
+        return RadialWavefunction.polarizedDipoleOverlap(a, b, dipoleCore.alphaC() / (scale * scale * scale),
+                cutoff / scale) * scale;
     }
 
     /**
@@ -591,7 +643,7 @@ public final class AlkaliAtom {
                 continue;
             }
             double nu = (e - level.energyPerCm()) * 100 * C;
-            double d = angular * RadialWavefunction.overlap(wavefunction(lower), upper, 1) * lengthScale();
+            double d = angular * dipoleBohr(wavefunction(lower), upper);
             channels.add(new DecayChannel(state, lower, nu, rate(nu, d, state.twoJ())));
         }
         return channels;
@@ -672,7 +724,7 @@ public final class AlkaliAtom {
             if (nu == 0) {
                 continue;
             }
-            double d = angular * RadialWavefunction.overlap(self, wavefunction(other), 1) * lengthScale();
+            double d = angular * dipoleBohr(self, wavefunction(other));
             double occupation = 1 / Math.expm1(H * nu / (PhysicalConstants.K * temperatureK));
             double rate = level.energyPerCm() < e ? rate(nu, d, state.twoJ()) * occupation
                     : rate(nu, d, other.twoJ()) * occupation * (other.twoJ() + 1.0) / (state.twoJ() + 1.0);
@@ -706,6 +758,7 @@ public final class AlkaliAtom {
     @Override
     public String toString() {
         return "AlkaliAtom[" + species() + ", " + defects.info().id() + ", " + measuredList.size() + " measured levels"
-                + (model == null ? ", Coulomb approximation]" : ", model potential]");
+                + (model == null ? ", Coulomb approximation" : ", model potential")
+                + (dipoleCore == null ? "]" : ", core-polarized dipole]");
     }
 }
