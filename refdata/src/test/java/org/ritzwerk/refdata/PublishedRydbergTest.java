@@ -186,6 +186,30 @@ class PublishedRydbergTest {
     }
 
     @Test
+    void theModelPotentialIntoTheCoreWithTheCorePolarizedDipoleComesClosest() {
+        // The Marinescu et al. (1994) potential integrated down to 0.01 a0 (converged: 0.002 a0 and the
+        // step 0.003 change these by 0.05 % at most), with the core-polarized dipole operator. Achieved
+        // (ns, per cent from the measurements of FIRST_P_LIFETIMES): Na 16.203 (-0.59), 16.156 (-0.60);
+        // K 26.868 (+0.67), 26.528 (+0.71); Rb 28.305 (+2.2), 26.830 (+2.2); Cs 35.824 (+2.5), 31.161
+        // (+2.2). Without the correction the same functions give Rb 24.92 / 23.70 ns (-10 %).
+        // Declared: Na and K within 1 % (the goal), Rb and Cs within 3 % (goal not reached).
+        double[] tolerance = {0.01, 0.01, 0.03, 0.03};
+        for (int i = 0; i < FIRST_P_LIFETIMES.length; i++) {
+            Object[] row = FIRST_P_LIFETIMES[i];
+            String species = (String) row[0];
+            int n = (Integer) row[1];
+            var potential = DATA.modelPotential(Species.parse(species));
+            AlkaliAtom atom = atom(species).withModelPotential(potential).withInnerRadius(0.01)
+                    .withCorePolarizedDipole(potential);
+            for (int twoJ = 1; twoJ <= 3; twoJ += 2) {
+                double measured = (twoJ == 1 ? (Double) row[2] : (Double) row[3]) * 1e-9;
+                State p = State.of(n, 1, twoJ);
+                assertEquals(measured, atom.radiativeLifetime(p), tolerance[i] * measured, species + " " + p);
+            }
+        }
+    }
+
+    @Test
     void theCorePolarizedDipoleLeavesRydbergRydbergElementsAndBranchingIntact() {
         for (String species : new String[] {"Li-7 I", "Na-23 I", "K-39 I", "Rb-87 I", "Cs-133 I"}) {
             AlkaliAtom bare = atom(species);
@@ -198,6 +222,16 @@ class PublishedRydbergTest {
                 double ca = bare.radialDipoleBohr(pair[0], pair[1]);
                 assertEquals(ca, polarized.radialDipoleBohr(pair[0], pair[1]), 1e-6 * Math.abs(ca),
                         species + " " + pair[0] + "-" + pair[1]);
+                // the model potential into the core with the correction against the model potential at its
+                // default cut-off with the bare r: within 3e-5 (measured: 1.2e-5 at most, Cs 30p1/2-31s1/2).
+                // (The model potential itself differs from the Coulomb approximation by up to 2.1e-4, Li
+                // 40d5/2-41p3/2, whatever the inner radius and the operator.)
+                var potential = DATA.modelPotential(Species.parse(species));
+                AlkaliAtom model = bare.withModelPotential(potential);
+                AlkaliAtom best = model.withInnerRadius(0.01).withCorePolarizedDipole(potential);
+                double mp = model.radialDipoleBohr(pair[0], pair[1]);
+                assertEquals(mp, best.radialDipoleBohr(pair[0], pair[1]), 3e-5 * Math.abs(mp),
+                        species + " " + pair[0] + "-" + pair[1] + " model potential");
             }
             // the resonance element shrinks (the induced core dipole opposes the electron's)
             State s = polarized.groundState();
@@ -215,6 +249,19 @@ class PublishedRydbergTest {
                 assertEquals(1.0, sum, 1e-12, species + " " + upper);
             }
         }
+    }
+
+    @Test
+    void anInnerRadiusOutsideItsRangeIsRefusedByName() {
+        AlkaliAtom rb = atom("Rb-87 I");
+        for (double bad : new double[] {0, -1, 11, Double.POSITIVE_INFINITY}) {
+            IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                    () -> rb.withInnerRadius(bad));
+            assertTrue(e.getMessage().startsWith("inner radius must be 1e-4 to 10 a0"), e.getMessage());
+        }
+        assertEquals(Math.cbrt(rb.corePolarizability().orElseThrow().dipoleAu()), rb.innerRadiusBohr(), 0.0);
+        assertEquals(0.01, rb.withInnerRadius(0.01).innerRadiusBohr(), 0.0);
+        assertEquals(rb.innerRadiusBohr(), rb.withInnerRadius(0.01).withInnerRadius(Double.NaN).innerRadiusBohr(), 0.0);
     }
 
     @Test
