@@ -71,8 +71,9 @@ import org.ritzwerk.engine.angular.WignerSymbols;
  * <p><b>Accuracy</b> (see the tests): levels as good as the measured values and the fits (the
  * fits meet the measured levels within 0.1 cm^-1 from valid-from-n on); Rydberg-Rydberg dipole
  * integrals limited by the Coulomb approximation at the 1e-3 level or better; resonance-line
- * elements of the lowest states 1 to 6 % high (no core potential, no core polarization of the
- * dipole operator), so lifetimes of the lowest p levels come out 3 to 11 % short; black-body
+ * elements of the lowest states 1 to 6 % high with the defaults (no core potential, the bare dipole
+ * operator), so lifetimes of the lowest p levels come out 3 to 11 % short (see the dipole-operator
+ * paragraph above for the options that bring them within 0.6 to 2.6 %); black-body
  * rates of Rb within 5 % of the Beterov et al. (2009) fits for n = 30 to 60.
  */
 public final class AlkaliAtom {
