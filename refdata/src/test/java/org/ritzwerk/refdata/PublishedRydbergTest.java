@@ -1,12 +1,14 @@
 package org.ritzwerk.refdata;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.DecayChannel;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
 import org.ritzwerk.medium.Medium;
 
@@ -138,6 +140,128 @@ class PublishedRydbergTest {
         assertEquals(30.473e-9, atom("Cs-133 I").radiativeLifetime(State.of(6, 1, 3)), 0.12 * 30.473e-9);
         // 3P3/2 of Na 16.2492(77) ns (Steck, from memory): 15.8 ns here, within 4 %.
         assertEquals(16.2492e-9, atom("Na-23 I").radiativeLifetime(State.of(3, 1, 3)), 0.04 * 16.2492e-9);
+    }
+
+    /**
+     * Measured first-p lifetimes, ns, each {species, n, tau(p1/2), tau(p3/2), before, after}: "before" is
+     * the bare Coulomb approximation's relative error, "after" the declared tolerance with the
+     * core-polarized dipole operator (the achieved error rounded up by about half a per cent).
+     * Na, K, Rb: U. Volz and H. Schmoranzer, Phys. Scr. T65, 48 (1996); Cs: R. J. Rafac et al., Phys.
+     * Rev. A 60, 3648 (1999). All from memory; checked against a second recalled value each (Steck's
+     * data sheets: Na 3p3/2 16.2492 ns, Rb 5p3/2 26.2348 ns of Gutterres et al. 2002, Cs 6p3/2
+     * 30.473 ns and 6p1/2 34.894 ns; Tiecke's potassium sheet: 26.72 and 26.37 ns), all within 0.15 %.
+     */
+    private static final Object[][] FIRST_P_LIFETIMES = {
+        {"Na-23 I", 3, 16.299, 16.254, 0.005},
+        {"K-39 I", 4, 26.69, 26.34, 0.035},
+        {"Rb-87 I", 5, 27.70, 26.24, 0.055},
+        {"Cs-133 I", 6, 34.934, 30.499, 0.075},
+    };
+
+    @Test
+    void theCorePolarizedDipoleLengthensTheFirstPLifetimesTowardsTheMeasuredOnes() {
+        // Achieved (ns, per cent from the measurement), bare -> core-polarized, Coulomb approximation:
+        // Na 3p1/2 15.856 (-2.7) -> 16.306 (+0.04), 3p3/2 15.810 (-2.7) -> 16.258 (+0.02);
+        // K 4p1/2 25.058 (-6.1) -> 27.407 (+2.7), 4p3/2 24.745 (-6.1) -> 27.047 (+2.7);
+        // Rb 5p1/2 25.482 (-8.0) -> 28.969 (+4.6), 5p3/2 24.211 (-7.7) -> 27.421 (+4.5);
+        // Cs 6p1/2 31.243 (-10.6) -> 37.297 (+6.8), 6p3/2 27.381 (-10.2) -> 32.308 (+5.9).
+        // Only Na reaches the 1 % goal: for the heavier atoms the correction overshoots (the Coulomb
+        // approximation's wavefunctions inside the core are not those of a real potential).
+        for (Object[] row : FIRST_P_LIFETIMES) {
+            String species = (String) row[0];
+            int n = (Integer) row[1];
+            double tolerance = (Double) row[4];
+            AlkaliAtom bare = atom(species);
+            AlkaliAtom polarized = bare.withCorePolarizedDipole(DATA.modelPotential(Species.parse(species)));
+            for (int twoJ = 1; twoJ <= 3; twoJ += 2) {
+                double measured = (twoJ == 1 ? (Double) row[2] : (Double) row[3]) * 1e-9;
+                State p = State.of(n, 1, twoJ);
+                double before = bare.radiativeLifetime(p);
+                double after = polarized.radiativeLifetime(p);
+                assertEquals(measured, after, tolerance * measured, species + " " + p);
+                assertTrue(Math.abs(after - measured) < Math.abs(before - measured), species + " " + p
+                        + " closer to the measurement with the correction");
+            }
+        }
+    }
+
+    @Test
+    void theModelPotentialIntoTheCoreWithTheCorePolarizedDipoleComesClosest() {
+        // The Marinescu et al. (1994) potential integrated down to 0.01 a0 (converged: 0.002 a0 and the
+        // step 0.003 change these by 0.05 % at most), with the core-polarized dipole operator. Achieved
+        // (ns, per cent from the measurements of FIRST_P_LIFETIMES): Na 16.203 (-0.59), 16.156 (-0.60);
+        // K 26.868 (+0.67), 26.528 (+0.71); Rb 28.305 (+2.2), 26.830 (+2.2); Cs 35.824 (+2.5), 31.161
+        // (+2.2). Without the correction the same functions give Rb 24.92 / 23.70 ns (-10 %).
+        // Declared: Na and K within 1 % (the goal), Rb and Cs within 3 % (goal not reached).
+        double[] tolerance = {0.01, 0.01, 0.03, 0.03};
+        for (int i = 0; i < FIRST_P_LIFETIMES.length; i++) {
+            Object[] row = FIRST_P_LIFETIMES[i];
+            String species = (String) row[0];
+            int n = (Integer) row[1];
+            var potential = DATA.modelPotential(Species.parse(species));
+            AlkaliAtom atom = atom(species).withModelPotential(potential).withInnerRadius(0.01)
+                    .withCorePolarizedDipole(potential);
+            for (int twoJ = 1; twoJ <= 3; twoJ += 2) {
+                double measured = (twoJ == 1 ? (Double) row[2] : (Double) row[3]) * 1e-9;
+                State p = State.of(n, 1, twoJ);
+                assertEquals(measured, atom.radiativeLifetime(p), tolerance[i] * measured, species + " " + p);
+            }
+        }
+    }
+
+    @Test
+    void theCorePolarizedDipoleLeavesRydbergRydbergElementsAndBranchingIntact() {
+        for (String species : new String[] {"Li-7 I", "Na-23 I", "K-39 I", "Rb-87 I", "Cs-133 I"}) {
+            AlkaliAtom bare = atom(species);
+            AlkaliAtom polarized = bare.withCorePolarizedDipole(DATA.modelPotential(Species.parse(species)));
+            // alpha_d / r^3 is below 1e-7 where these integrands live (r ~ n*^2, 900 to 2500 a0): the
+            // integrals agree to 1e-6 relative (measured: 2e-7 at most, Cs 30p1/2-31s1/2; 1e-8 for n = 50)
+            State[][] pairs = {{State.of(50, 0, 1), State.of(50, 1, 3)}, {State.of(40, 2, 5), State.of(41, 1, 3)},
+                {State.of(30, 1, 1), State.of(31, 0, 1)}};
+            for (State[] pair : pairs) {
+                double ca = bare.radialDipoleBohr(pair[0], pair[1]);
+                assertEquals(ca, polarized.radialDipoleBohr(pair[0], pair[1]), 1e-6 * Math.abs(ca),
+                        species + " " + pair[0] + "-" + pair[1]);
+                // the model potential into the core with the correction against the model potential at its
+                // default cut-off with the bare r: within 3e-5 (measured: 1.2e-5 at most, Cs 30p1/2-31s1/2).
+                // (The model potential itself differs from the Coulomb approximation by up to 2.1e-4, Li
+                // 40d5/2-41p3/2, whatever the inner radius and the operator.)
+                var potential = DATA.modelPotential(Species.parse(species));
+                AlkaliAtom model = bare.withModelPotential(potential);
+                AlkaliAtom best = model.withInnerRadius(0.01).withCorePolarizedDipole(potential);
+                double mp = model.radialDipoleBohr(pair[0], pair[1]);
+                assertEquals(mp, best.radialDipoleBohr(pair[0], pair[1]), 3e-5 * Math.abs(mp),
+                        species + " " + pair[0] + "-" + pair[1] + " model potential");
+            }
+            // the resonance element shrinks (the induced core dipole opposes the electron's)
+            State s = polarized.groundState();
+            State p = State.of(s.n(), 1, 3);
+            assertTrue(Math.abs(polarized.reducedDipole(s, p)) < Math.abs(bare.reducedDipole(s, p)), species);
+            // branching ratios of a Rydberg state and of the first p level sum to 1, and every channel's A is
+            // the one einsteinA gives for that pair
+            for (State upper : new State[] {State.of(40, 1, 3), p}) {
+                double total = polarized.spontaneousRate(upper);
+                double sum = 0;
+                for (DecayChannel c : polarized.spontaneousChannels(upper)) {
+                    sum += c.ratePerSecond() / total;
+                    assertEquals(polarized.einsteinA(upper, c.to()), c.ratePerSecond(), 1e-12 * c.ratePerSecond());
+                }
+                assertEquals(1.0, sum, 1e-12, species + " " + upper);
+            }
+        }
+    }
+
+    @Test
+    void anInnerRadiusOutsideItsRangeIsRefusedByName() {
+        AlkaliAtom rb = atom("Rb-87 I");
+        for (double bad : new double[] {0, -1, 11, Double.POSITIVE_INFINITY}) {
+            IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                    () -> rb.withInnerRadius(bad));
+            assertTrue(e.getMessage().startsWith("inner radius must be 1e-4 to 10 a0"), e.getMessage());
+        }
+        assertEquals(Math.cbrt(rb.corePolarizability().orElseThrow().dipoleAu()), rb.innerRadiusBohr(), 0.0);
+        assertEquals(0.01, rb.withInnerRadius(0.01).innerRadiusBohr(), 0.0);
+        assertEquals(rb.innerRadiusBohr(), rb.withInnerRadius(0.01).withInnerRadius(Double.NaN).innerRadiusBohr(), 0.0);
     }
 
     @Test

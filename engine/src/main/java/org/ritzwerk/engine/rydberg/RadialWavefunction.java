@@ -175,6 +175,34 @@ public final class RadialWavefunction {
         return 2 * h * sum;
     }
 
+    /**
+     * {@code integral R_a(r) R_b(r) r^3 [1 - (alpha_d / r^3) (1 - exp(-(r / r_c)^3))] dr}: the radial
+     * dipole integral with the core-polarization correction of the dipole operator (see
+     * {@link AlkaliAtom#withCorePolarizedDipole(boolean)}), all lengths in reduced units a_mu.
+     *
+     * @param alpha  the core dipole polarizability alpha_d in a_mu^3, not negative (0: the bare r)
+     * @param cutoff the cut-off radius r_c in a_mu, positive
+     */
+    static double polarizedDipoleOverlap(RadialWavefunction a, RadialWavefunction b, double alpha, double cutoff) {
+        if (a.step != b.step) {
+            throw new IllegalArgumentException("wavefunctions on different grids: h = " + a.step + " and " + b.step);
+        }
+        int from = Math.max(a.first, b.first);
+        int to = Math.min(a.first + a.chi.length, b.first + b.chi.length) - 1;
+        double sum = 0;
+        double h = a.step;
+        double rc3 = cutoff * cutoff * cutoff;
+        for (int k = from; k <= to; k++) {
+            double r = (k * h) * (k * h);
+            double r3 = r * r * r;
+            // the weight of the bare dipole in overlap(a, b, 1), x^4 = r^2, times the operator's factor
+            // 1 - (alpha / r^3) (1 - exp(-(r / r_c)^3)); expm1 keeps it exact where r << r_c
+            double factor = 1 + alpha / r3 * Math.expm1(-r3 / rc3);
+            sum += a.chi[k - a.first] * b.chi[k - b.first] * r * r * factor;
+        }
+        return 2 * h * sum;
+    }
+
     /** @return the state */
     public State state() {
         return state;
