@@ -155,6 +155,12 @@ public final class LampMatcher {
     public record Prior(double minWavelengthNm, double maxWavelengthNm, double minDispersion, double maxDispersion) {
 
         /**
+         * Validates the range.
+         *
+         * @param minWavelengthNm lowest wavelength (nm) any detector pixel may see
+         * @param maxWavelengthNm highest wavelength (nm) any detector pixel may see
+         * @param minDispersion   lowest local dispersion, nm per pixel
+         * @param maxDispersion   highest local dispersion, nm per pixel
          * @throws IllegalArgumentException unless 0 &lt;= min &lt; max wavelength (max may be
          *         infinite) and min &lt; max dispersion, both finite
          */
@@ -221,7 +227,10 @@ public final class LampMatcher {
                 DEFAULT_MAX_DEGREE, DEFAULT_MIN_INLIER_FRACTION, DEFAULT_MAX_CURVATURE);
     }
 
-    /** @param prior what is known of the range and dispersion @return a copy with that prior */
+    /**
+     * @param prior what is known of the range and dispersion
+     * @return a copy with that prior
+     */
     public LampMatcher withPrior(Prior prior) {
         return new LampMatcher(Objects.requireNonNull(prior, "prior"), tolerance, strongPeaks, strongLines, maxDegree,
                 minInlierFraction, maxCurvature);

@@ -13,7 +13,14 @@ import org.ritzwerk.atom.State;
  */
 public record DecayChannel(State from, State to, double frequencyHz, double ratePerSecond) {
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param from          the state that decays (or is driven)
+     * @param to            the state reached
+     * @param frequencyHz   the transition frequency |E_to - E_from| / h, Hz
+     * @param ratePerSecond the rate in s^-1
+     */
     public DecayChannel {
         Objects.requireNonNull(from, "from");
         Objects.requireNonNull(to, "to");

@@ -17,7 +17,15 @@ import org.ritzwerk.medium.Medium;
  */
 public record LadderExcitation(State lower, State intermediate, State upper, double firstHz, double secondHz) {
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param lower        the start (usually the ground state)
+     * @param intermediate the intermediate state
+     * @param upper        the Rydberg state
+     * @param firstHz      frequency of the first photon, Hz
+     * @param secondHz     frequency of the second photon, Hz
+     */
     public LadderExcitation {
         Objects.requireNonNull(lower, "lower");
         Objects.requireNonNull(intermediate, "intermediate");

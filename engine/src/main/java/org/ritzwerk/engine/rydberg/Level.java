@@ -14,7 +14,14 @@ import org.ritzwerk.constants.PhysicalConstants;
  */
 public record Level(State state, double energyPerCm, double effectiveN, LevelOrigin origin) {
 
-    /** Validates the components. */
+    /**
+     * Validates the components.
+     *
+     * @param state       the state
+     * @param energyPerCm energy above the ground level, cm^-1
+     * @param effectiveN  the effective principal quantum number
+     * @param origin      where the energy comes from
+     */
     public Level {
         Objects.requireNonNull(state, "state");
         Objects.requireNonNull(origin, "origin");

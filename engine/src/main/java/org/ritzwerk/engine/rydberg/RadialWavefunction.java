@@ -218,7 +218,10 @@ public final class RadialWavefunction {
         return chi.length;
     }
 
-    /** @param i point index, 0 (innermost) to size() - 1 @return its radius in Bohr radii a0 */
+    /**
+     * @param i point index, 0 (innermost) to size() - 1
+     * @return its radius in Bohr radii a0
+     */
     public double radiusBohr(int i) {
         double x = (first + i) * step;
         return x * x * lengthScale;
