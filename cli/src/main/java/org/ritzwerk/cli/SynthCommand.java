@@ -23,6 +23,7 @@ import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.engine.synth.SceneException;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.ContinuumFiles;
 import org.ritzwerk.refdata.OutputFiles;
 import org.ritzwerk.refdata.SpectrumLineFiles;
 import org.ritzwerk.refdata.SyntheticSpectrumFiles;
@@ -497,7 +498,7 @@ final class SynthCommand implements Callable<Integer> {
             if (!continuumKind.equals("none")) {
                 throw new OptionException("give --continuum or --continuum-file, not both");
             }
-            density = ContinuumFile.read(continuumFile, grid.edge(0), grid.edge(grid.pixels()));
+            density = ContinuumFiles.read(continuumFile, grid.edge(0), grid.edge(grid.pixels()));
         } else {
             switch (continuumKind) {
                 case "none":

@@ -1,39 +1,38 @@
-package org.ritzwerk.cli;
+package org.ritzwerk.refdata;
 
-import java.io.IOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.List;
 import java.util.function.DoubleUnaryOperator;
+import org.ritzwerk.RitzwerkException;
 
 /**
- * A continuum of the user's own: a CSV file with {@code #} comment lines, a header
- * {@code wavelength_nm,density} and rows with rising positive wavelengths (axis medium) and densities
- * that are finite and not negative, in any unit (only the shape matters). Between rows the
- * density is linear.
+ * A continuum shape of the user's own: a CSV file with {@code #} comment lines, a header
+ * {@code wavelength_nm,density} and rows with rising positive wavelengths (in the spectrum's axis
+ * medium) and densities that are finite and not negative, in any unit (only the shape matters).
+ * Between rows the density is linear. Every bad row is reported at once, each with file, line and
+ * field. Stateless.
  */
-final class ContinuumFile {
+public final class ContinuumFiles {
 
-    private ContinuumFile() {
+    /** Error code of a continuum file that cannot be used: bad rows, too few rows, a short range. */
+    public static final String BAD_FILE = "continuum.bad-file";
+
+    private ContinuumFiles() {
     }
 
     /**
-     * @param file the file
+     * @param file the file (UTF-8; a byte-order mark is accepted)
      * @param lo   the spectrum's first pixel edge, nm; the file must reach it
      * @param hi   the last pixel edge, nm; the file must reach it
-     * @return the density as a function of wavelength in nm, divided by its largest value
-     * @throws IOException when the file cannot be read
-     * @throws OptionException naming the file, line and field of every bad row
+     * @return the density as a function of wavelength in nm, divided by the largest value the
+     *         spectrum's range sees
+     * @throws DataFileException when the file cannot be read (missing, a folder, not UTF-8)
+     * @throws RitzwerkException with code {@link #BAD_FILE}, naming the file, line and field of
+     *         every bad row
      */
-    static DoubleUnaryOperator read(Path file, double lo, double hi) throws IOException {
-        List<String> text;
-        try {
-            text = Files.readAllLines(file, StandardCharsets.UTF_8);
-        } catch (java.nio.file.NoSuchFileException e) {
-            throw new OptionException(file + ": no such file (--continuum-file)");
-        }
+    public static DoubleUnaryOperator read(Path file, double lo, double hi) {
+        List<String> text = TabularFiles.read(file).lines().toList();
         double[] x = new double[text.size()];
         double[] y = new double[text.size()];
         int n = 0;
@@ -48,7 +47,7 @@ final class ContinuumFile {
             }
             if (!header) {
                 if (!line.replace(" ", "").equals("wavelength_nm,density")) {
-                    throw new OptionException(where + "expected the header 'wavelength_nm,density', got '"
+                    throw refused(where + "expected the header 'wavelength_nm,density', got '"
                             + line + "'");
                 }
                 header = true;
@@ -83,15 +82,14 @@ final class ContinuumFile {
             n++;
         }
         if (!problems.isEmpty()) {
-            throw new OptionException(problems.size() == 1 ? problems.get(0)
-                    : problems.size() + " problems in " + file + " (--continuum-file):\n  " + String.join("\n  ",
-                            problems));
+            throw refused(problems.size() == 1 ? problems.get(0)
+                    : problems.size() + " problems in " + file + ":\n  " + String.join("\n  ", problems));
         }
         if (n < 2) {
-            throw new OptionException(file + ": needs at least two rows after the header, found " + n);
+            throw refused(file + ": needs at least two rows after the header, found " + n);
         }
         if (x[0] > lo || x[n - 1] < hi) {
-            throw new OptionException(file + ": covers " + x[0] + " to " + x[n - 1]
+            throw refused(file + ": covers " + x[0] + " to " + x[n - 1]
                     + " nm but the spectrum spans " + lo + " to " + hi + " nm");
         }
         double[] xs = Arrays.copyOf(x, n);
@@ -126,6 +124,10 @@ final class ContinuumFile {
             double t = (nm - xs[i - 1]) / (xs[i] - xs[i - 1]);
             return ys[i - 1] + t * (ys[i] - ys[i - 1]);
         };
+    }
+
+    private static RitzwerkException refused(String message) {
+        return new RitzwerkException(BAD_FILE, message);
     }
 
     /** The cell as a finite number, or NaN after adding a problem naming where it is. */
