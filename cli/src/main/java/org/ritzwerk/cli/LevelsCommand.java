@@ -8,9 +8,12 @@ import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.LevelTable;
 import org.ritzwerk.engine.hydrogenic.Notation;
+import org.ritzwerk.engine.hyperfine.HyperfineLevel;
+import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.Level;
 import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.refdata.AlkaliHyperfine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -63,6 +66,12 @@ final class LevelsCommand implements Callable<Integer> {
                     + "this temperature (bound states only; photoionisation left out).")
     Double temperature;
 
+    @Option(names = "--hyperfine",
+            description = "Alkali isotopes: split the levels with published hyperfine constants (the ground and "
+                    + "first p levels) into their F levels, each with its energy (Casimir formula with A and B) "
+                    + "and g = 2F + 1.")
+    boolean hyperfine;
+
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
@@ -105,6 +114,17 @@ final class LevelsCommand implements Callable<Integer> {
                 + " effective lifetimes are computed for alkali atoms)");
         rules.refuseUnless("--l-max", alkali, "for one-electron ions (--species names no alkali atom; every l of a"
                 + " one-electron ion up to n - 1 is listed)");
+        rules.refuseUnless("--hyperfine", alkali, "for one-electron ions (--species names no alkali atom; give"
+                + " --model hyperfine for their F levels)");
+        if (hyperfine) {
+            for (AlkaliAtom atom : atoms.alkalis()) {
+                if (data.context().alkaliHyperfine().constants(atom.species()).isEmpty()) {
+                    throw new OptionException("--hyperfine: no hyperfine constants for " + atom.species().notation()
+                            + "; isotopes with constants: " + String.join(", ", data.context().alkaliHyperfine()
+                                    .species().stream().map(org.ritzwerk.atom.Species::notation).toList()));
+                }
+            }
+        }
         rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion;"
                 + " the model column says where each alkali energy comes from)");
         if (lifetimes) {
@@ -181,7 +201,23 @@ final class LevelsCommand implements Callable<Integer> {
                             row[10] = atom.effectiveLifetime(state, temperature);
                         }
                     }
-                    table.add(java.util.Arrays.copyOf(row, columns));
+                    java.util.Optional<AlkaliHyperfine.LevelConstants> split = hyperfine
+                            ? data.context().alkaliHyperfine().constants(atom.species(), state)
+                            : java.util.Optional.empty();
+                    if (split.isEmpty()) {
+                        table.add(java.util.Arrays.copyOf(row, columns));
+                        continue;
+                    }
+                    // Each F level: the level's energy plus its hyperfine shift, g = 2F + 1.
+                    int twoI = data.context().nucleus(atom.species()).twiceSpin();
+                    for (HyperfineLevel f : HyperfineStructure.levels(twoI, twoJ, split.get().constants())) {
+                        Object[] fRow = row.clone();
+                        fRow[5] = f.fLabel();
+                        fRow[6] = f.twoF() + 1;
+                        fRow[7] = level.energyPerCm() + f.shiftHertz() / (PhysicalConstants.C * 100);
+                        fRow[8] = row[8] + ", hyperfine A, B";
+                        table.add(java.util.Arrays.copyOf(fRow, columns));
+                    }
                 }
             }
             progress.accept((double) n / nMax);

@@ -18,6 +18,36 @@ class AlkaliCommandsTest {
     private static final JsonMapper JSON = JsonMapper.builder().build();
 
     @Test
+    void levelsSplitIntoHyperfineLevelsWithHyperfine() {
+        CliTest.Run run = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "5", "--l-max", "1", "--hyperfine",
+                "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        JsonMapper json = JsonMapper.builder().build();
+        double f1 = Double.NaN;
+        double f2 = Double.NaN;
+        int p32 = 0;
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode row = json.readTree(line);
+            if (row.get("label").asString().equals("5s 2S1/2")) {
+                if (row.get("hyperfine_f").asString().equals("1")) {
+                    f1 = row.get("energy_per_cm").asDouble();
+                } else if (row.get("hyperfine_f").asString().equals("2")) {
+                    f2 = row.get("energy_per_cm").asDouble();
+                    assertEquals(5, row.get("g").asInt(), line);
+                }
+            }
+            p32 += row.get("label").asString().equals("5p 2P3/2") ? 1 : 0;
+        }
+        // The Rb-87 ground-state splitting, 6 834 682 610.904 Hz (Bize et al., Europhys. Lett. 45,
+        // 558 (1999)), to 0.1 MHz; I = 3/2 and J = 3/2 give F' = 0 to 3.
+        assertEquals(6834682610.904, (f2 - f1) * 100 * 299_792_458.0, 1e5, run.out());
+        assertEquals(4, p32, run.out());
+        CliTest.Run ions = CliTest.run("levels", "--species", "H", "--hyperfine");
+        assertEquals(2, ions.code(), ions.err());
+        assertTrue(ions.err().contains("--hyperfine has no effect for one-electron ions"), ions.err());
+    }
+
+    @Test
     void levelsOfRubidiumCarryTheIssueFields() {
         CliTest.Run run = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "80", "--format", "json");
         assertEquals(0, run.code(), run.err());
