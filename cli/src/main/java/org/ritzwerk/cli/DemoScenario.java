@@ -10,6 +10,7 @@ import java.util.Locale;
 import java.util.Optional;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.calibrate.CalibratedPeaks;
 import org.ritzwerk.engine.calibrate.Calibration;
@@ -19,6 +20,7 @@ import org.ritzwerk.engine.calibrate.DispersionSolution;
 import org.ritzwerk.engine.calibrate.LampSet;
 import org.ritzwerk.engine.calibrate.PeakFinder;
 import org.ritzwerk.engine.calibrate.Peaks;
+import org.ritzwerk.engine.hyperfine.HyperfineComponent;
 import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
 import org.ritzwerk.engine.identify.IdentificationSearch;
@@ -83,6 +85,7 @@ final class DemoScenario {
         double deuteriumRatio = Double.NaN;
         final List<Double> rydbergMicrowaveGhz = new ArrayList<>();
         final List<Double> rydbergSecondLaserNm = new ArrayList<>();
+        double rydbergLockTerahertz = Double.NaN;
         final List<Path> files = new ArrayList<>();
     }
 
@@ -396,6 +399,15 @@ final class DemoScenario {
             results.rydbergMicrowaveGhz.add(Math.abs(ghz));
             results.rydbergSecondLaserNm.add(ladder.secondMetres(Medium.air()) * 1e9);
         }
+        // The first laser is locked to the strongest hyperfine component of D2.
+        HyperfineComponent lock = data.alkaliHyperfine().components(data, Species.parse("Rb-87 I"), ground,
+                intermediate).stream().filter(c -> c.twoFLower() == 4 && c.twoFUpper() == 6).findFirst().orElseThrow();
+        double centroid = rb.frequencyHz(ground, intermediate);
+        out.printf(Locale.ROOT, "   Laser 1 locks to D2 5s1/2 F=2 -> 5p3/2 F'=3: %.6f THz (%.5f nm vacuum), %.1f MHz from%n",
+                lock.frequencyHertz() / 1e12, PhysicalConstants.C / lock.frequencyHertz() * 1e9,
+                (lock.frequencyHertz() - centroid) / 1e6);
+        out.println("   the line's hyperfine-free centroid (Rb-87's own D2 measurement and A, B constants).");
+        results.rydbergLockTerahertz = lock.frequencyHertz() / 1e12;
         out.println("   Laser wavelengths in standard air; the dipole is the reduced matrix element (Edmonds'");
         out.println("   convention); lifetimes from the Coulomb-approximation wavefunctions. Laser light and the");
         out.println("   lamps above need the usual protection: see the README's safety section.");

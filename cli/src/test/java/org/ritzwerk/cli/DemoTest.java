@@ -61,6 +61,14 @@ class DemoTest {
         double modelGhz = Math.abs(rb.frequencyHz(State.parse("51p3/2"), State.parse("50d5/2"))) / 1e9;
         assertEquals(modelGhz, r.rydbergMicrowaveGhz.get(1), 1e-9, report);
         assertEquals(480.0, r.rydbergSecondLaserNm.get(1), 0.5, report);
+        // The cooling/lock line 5s1/2 F=2 -> 5p3/2 F'=3: the Rb-87 D2 centroid 384 230 484.4685 MHz
+        // (Ye et al., Opt. Lett. 21, 1280 (1996), as in d-lines.csv) less 3/4 A(5s) = 2563.006 MHz
+        // (A = 3417.341 MHz, half the ground splitting 6834.683 MHz of Bize et al. 1999)
+        // plus 9/4 A + B/4 of 5p3/2 (A = 84.7185, B = 12.4965 MHz, Arimondo et al. 1977, from memory):
+        // 384.228115 THz to 1 MHz.
+        assertEquals(384.2304844685 - 2563.006e-6 + (2.25 * 84.7185 + 12.4965 / 4) * 1e-6, r.rydbergLockTerahertz,
+                1e-6, report);
+        assertTrue(report.contains("Laser 1 locks to D2 5s1/2 F=2 -> 5p3/2 F'=3"), report);
         for (String name : new String[] {"neon-lamp.csv", "calibration.json", "calibration-residuals.png",
             "discharge.csv", "discharge.png", "discharge-peaks.csv"}) {
             assertTrue(Files.size(dir.resolve("out").resolve(name)) > 100, name);

@@ -386,7 +386,6 @@ final class TabularFiles {
         }
     }
 
-    /** @throws DataFileException when the path is a folder, naming it */
     /**
      * @param text a value's text, stripped
      * @return whether it matches {@code [+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?} (a decimal number
@@ -435,6 +434,7 @@ final class TabularFiles {
         return c >= '0' && c <= '9';
     }
 
+    /** @throws DataFileException when the path is a folder, naming it */
     static void refuseFolder(Path file) {
         if (Files.isDirectory(file)) {
             throw new DataFileException(DataFileException.UNREADABLE, file.toString(), List.of(),
