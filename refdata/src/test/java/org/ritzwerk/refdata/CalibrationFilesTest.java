@@ -18,9 +18,11 @@ import org.ritzwerk.medium.Medium;
 /** Calibration files: a fitted solution written and read back gives the same wavelengths. */
 class CalibrationFilesTest {
 
-    @Test
-    void roundTripKeepsTheSolution(@TempDir Path dir) throws IOException {
-        // Exact quadratic pairs (invented): 400 + 0.1 p + 1e-5 p^2, with 0.01-pixel centroids.
+    /**
+     * A quadratic fitted to invented pairs on 400 + 0.1 p + 1e-5 p^2 nm (+-1e-4 nm in turn), with
+     * 0.01-pixel centroids, at pixels 10, 200, 400, 650, 800 and 1000.
+     */
+    static DispersionSolution fitted() {
         double[] pixel = {10, 200, 400, 650, 800, 1000};
         double[] nm = new double[pixel.length];
         double[] sigma = new double[pixel.length];
@@ -28,7 +30,12 @@ class CalibrationFilesTest {
             nm[i] = 400 + 0.1 * pixel[i] + 1e-5 * pixel[i] * pixel[i] + (i % 2 == 0 ? 1e-4 : -1e-4);
             sigma[i] = 0.01;
         }
-        DispersionSolution fitted = DispersionFit.ofDegree(2).fit(pixel, sigma, nm, null, Medium.air());
+        return DispersionFit.ofDegree(2).fit(pixel, sigma, nm, null, Medium.air());
+    }
+
+    @Test
+    void roundTripKeepsTheSolution(@TempDir Path dir) throws IOException {
+        DispersionSolution fitted = fitted();
         Path file = dir.resolve("calibration.json");
         CalibrationFiles.write(file, fitted, 1024, "invented pairs",
                 List.of("a", "b", "c", "d", "e", "f"));

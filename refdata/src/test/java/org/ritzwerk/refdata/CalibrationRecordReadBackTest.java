@@ -16,7 +16,6 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.data.CalibrationRecord;
 import org.ritzwerk.data.DispersionPolynomial;
-import org.ritzwerk.engine.calibrate.DispersionFit;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
 import org.ritzwerk.medium.Medium;
 
@@ -116,15 +115,7 @@ class CalibrationRecordReadBackTest {
 
     @Test
     void aFittedSolutionSavedAndReadGivesTheSameRecordAndText(@TempDir Path dir) throws IOException {
-        // Invented pairs on 400 + 0.1 p + 1e-5 p^2 nm, with 0.01-pixel centroids.
-        double[] pixel = {10, 200, 400, 650, 800, 1000};
-        double[] nm = new double[pixel.length];
-        double[] sigma = new double[pixel.length];
-        for (int i = 0; i < pixel.length; i++) {
-            nm[i] = 400 + 0.1 * pixel[i] + 1e-5 * pixel[i] * pixel[i] + (i % 2 == 0 ? 1e-4 : -1e-4);
-            sigma[i] = 0.01;
-        }
-        DispersionSolution fitted = DispersionFit.ofDegree(2).fit(pixel, sigma, nm, null, Medium.air());
+        DispersionSolution fitted = CalibrationFilesTest.fitted();   // invented pairs on a quadratic
         List<String> labels = List.of("a", "b", "c", "d", "e", "f");
         CalibrationRecord record = fitted.toRecord(1024, "invented pairs", labels,
                 List.of(new CalibrationRecord.SaturatedLine(512.25, 456.5, "g")));

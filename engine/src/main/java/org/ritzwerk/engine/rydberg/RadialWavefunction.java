@@ -143,13 +143,17 @@ public final class RadialWavefunction {
         return 8 * x2 * ModelPotentials.potential(model, l, x2 * lengthScale) + a * x2 + centrifugal / x2;
     }
 
+    private static void requireSameGrid(RadialWavefunction a, RadialWavefunction b) {
+        if (a.step != b.step) {
+            throw new IllegalArgumentException("wavefunctions on different grids: h = " + a.step + " and " + b.step);
+        }
+    }
+
     /**
      * {@code integral R_a(r) R_b(r) r^(2 + power) dr} on the common grid, in reduced units a_mu^power.
      */
     static double overlap(RadialWavefunction a, RadialWavefunction b, int power) {
-        if (a.step != b.step) {
-            throw new IllegalArgumentException("wavefunctions on different grids: h = " + a.step + " and " + b.step);
-        }
+        requireSameGrid(a, b);
         int from = Math.max(a.first, b.first);
         int to = Math.min(a.first + a.chi.length, b.first + b.chi.length) - 1;
         double sum = 0;
@@ -178,15 +182,13 @@ public final class RadialWavefunction {
     /**
      * {@code integral R_a(r) R_b(r) r^3 [1 - (alpha_d / r^3) (1 - exp(-(r / r_c)^3))] dr}: the radial
      * dipole integral with the core-polarization correction of the dipole operator (see
-     * {@link AlkaliAtom#withCorePolarizedDipole(boolean)}), all lengths in reduced units a_mu.
+     * {@link AlkaliAtom#withCorePolarizedDipole(org.ritzwerk.data.ModelPotential)}), all lengths in reduced units a_mu.
      *
      * @param alpha  the core dipole polarizability alpha_d in a_mu^3, not negative (0: the bare r)
      * @param cutoff the cut-off radius r_c in a_mu, positive
      */
     static double polarizedDipoleOverlap(RadialWavefunction a, RadialWavefunction b, double alpha, double cutoff) {
-        if (a.step != b.step) {
-            throw new IllegalArgumentException("wavefunctions on different grids: h = " + a.step + " and " + b.step);
-        }
+        requireSameGrid(a, b);
         int from = Math.max(a.first, b.first);
         int to = Math.min(a.first + a.chi.length, b.first + b.chi.length) - 1;
         double sum = 0;

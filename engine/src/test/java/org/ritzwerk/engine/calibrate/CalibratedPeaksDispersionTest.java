@@ -12,14 +12,8 @@ import org.ritzwerk.medium.Medium;
  */
 class CalibratedPeaksDispersionTest {
 
-    /** Two invented Gaussian peaks on a flat background, at pixels 200.3 and 401.7. */
     private static Peaks peaks() {
-        double[] counts = new double[600];
-        for (int p = 0; p < counts.length; p++) {
-            counts[p] = 100 + 5000 * Math.exp(-0.5 * Math.pow((p - 200.3) / 2.0, 2))
-                    + 3000 * Math.exp(-0.5 * Math.pow((p - 401.7) / 3.0, 2));
-        }
-        return PeakFinder.defaults().find(counts);
+        return CalibratedPeaksTest.peaks();
     }
 
     @Test

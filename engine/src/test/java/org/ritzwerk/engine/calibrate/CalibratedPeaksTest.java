@@ -15,7 +15,8 @@ import org.ritzwerk.medium.Medium;
  */
 class CalibratedPeaksTest {
 
-    private static Peaks peaks() {
+    /** Two invented Gaussian peaks on a flat background, at pixels 200.3 and 401.7. */
+    static Peaks peaks() {
         double[] counts = new double[600];
         for (int p = 0; p < counts.length; p++) {
             counts[p] = 100 + 5000 * Math.exp(-0.5 * Math.pow((p - 200.3) / 2.0, 2))
