@@ -1,8 +1,9 @@
 package org.ritzwerk.cli;
 
+import static org.ritzwerk.engine.hydrogenic.Notation.half;
+
 import java.io.PrintWriter;
 import java.util.List;
-import java.util.Locale;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
@@ -90,9 +91,5 @@ final class HyperfineTables {
             }
         }
         table.finish();
-    }
-
-    private static String half(int two) {
-        return (two & 1) == 0 ? Integer.toString(two / 2) : String.format(Locale.ROOT, "%d/2", two);
     }
 }

@@ -8,8 +8,6 @@ import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.LevelTable;
 import org.ritzwerk.engine.hydrogenic.Notation;
-import org.ritzwerk.engine.hyperfine.HyperfineLevel;
-import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.Level;
 import org.ritzwerk.engine.rydberg.RydbergException;
@@ -201,20 +199,18 @@ final class LevelsCommand implements Callable<Integer> {
                             row[10] = atom.effectiveLifetime(state, temperature);
                         }
                     }
-                    java.util.Optional<AlkaliHyperfine.LevelConstants> split = hyperfine
-                            ? data.context().alkaliHyperfine().constants(atom.species(), state)
-                            : java.util.Optional.empty();
+                    List<AlkaliHyperfine.FLevel> split = hyperfine
+                            ? data.context().alkaliHyperfine().fLevels(data.context(), atom.species(), state)
+                            : List.of();
                     if (split.isEmpty()) {
                         table.add(java.util.Arrays.copyOf(row, columns));
                         continue;
                     }
-                    // Each F level: the level's energy plus its hyperfine shift, g = 2F + 1.
-                    int twoI = data.context().nucleus(atom.species()).twiceSpin();
-                    for (HyperfineLevel f : HyperfineStructure.levels(twoI, twoJ, split.get().constants())) {
+                    for (AlkaliHyperfine.FLevel f : split) {
                         Object[] fRow = row.clone();
-                        fRow[5] = f.fLabel();
+                        fRow[5] = Notation.half(f.twoF());
                         fRow[6] = f.twoF() + 1;
-                        fRow[7] = level.energyPerCm() + f.shiftHertz() / (PhysicalConstants.C * 100);
+                        fRow[7] = f.energyPerCm();
                         fRow[8] = row[8] + ", hyperfine A, B";
                         table.add(java.util.Arrays.copyOf(fRow, columns));
                     }

@@ -18,10 +18,12 @@ import java.util.regex.Pattern;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.MeasuredLevel;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.hyperfine.HyperfineComponent;
 import org.ritzwerk.engine.hyperfine.HyperfineConstants;
+import org.ritzwerk.engine.hyperfine.HyperfineLevel;
 import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.hyperfine.ZeemanComponent;
 import org.ritzwerk.engine.hyperfine.ZeemanStructure;
@@ -304,6 +306,39 @@ public final class AlkaliHyperfine {
             } else {
                 out.add(level);
             }
+        }
+        return List.copyOf(out);
+    }
+
+    /**
+     * One F level of a level with hyperfine constants.
+     *
+     * @param twoF        2 F
+     * @param energyPerCm its energy above the ground level's hyperfine-free centroid, cm^-1: the
+     *                    level's hyperfine-free energy plus its Casimir shift
+     */
+    public record FLevel(int twoF, double energyPerCm) {
+    }
+
+    /**
+     * The F levels of a level with hyperfine constants (Casimir formula with its A and B).
+     *
+     * @param context the data context (nuclear spin, the atom's hyperfine-free level)
+     * @param species an isotope
+     * @param state   a level, e.g. 5p 2P3/2
+     * @return its F levels by rising F, or empty when this level has no constants here
+     */
+    public List<FLevel> fLevels(DataContext context, Species species, State state) {
+        Objects.requireNonNull(context, "context");
+        Optional<LevelConstants> own = constants(species, state);
+        if (own.isEmpty()) {
+            return List.of();
+        }
+        int twoI = context.nucleus(species).twiceSpin();
+        double centroid = context.alkaliAtom(species).level(state).energyPerCm();
+        List<FLevel> out = new ArrayList<>();
+        for (HyperfineLevel f : HyperfineStructure.levels(twoI, state.twoJ(), own.get().constants())) {
+            out.add(new FLevel(f.twoF(), centroid + f.shiftHertz() / (PhysicalConstants.C * 100)));
         }
         return List.copyOf(out);
     }

@@ -58,8 +58,8 @@ public final class Notation {
     }
 
     /**
-     * @param twice twice an angular momentum, not negative
-     * @return the angular momentum as text: {@code "2"}, {@code "3/2"}
+     * @param twice twice an angular momentum or its projection (any sign)
+     * @return the angular momentum as text: {@code "2"}, {@code "3/2"}, {@code "-1/2"}
      */
     public static String half(int twice) {
         return (twice & 1) == 0 ? Integer.toString(twice / 2) : twice + "/2";

@@ -1,5 +1,7 @@
 package org.ritzwerk.engine.hyperfine;
 
+import org.ritzwerk.engine.hydrogenic.Notation;
+
 /**
  * One hyperfine level F of a fine-structure level, at zero field. Immutable and thread-safe.
  *
@@ -16,6 +18,6 @@ public record HyperfineLevel(int twoF, double shiftHertz) {
 
     /** @return F as text: {@code 2} or {@code 5/2} */
     public String fLabel() {
-        return HyperfineStructure.half(twoF);
+        return Notation.half(twoF);
     }
 }

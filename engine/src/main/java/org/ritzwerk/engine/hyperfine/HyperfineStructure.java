@@ -1,5 +1,7 @@
 package org.ritzwerk.engine.hyperfine;
 
+import static org.ritzwerk.engine.hydrogenic.Notation.half;
+
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
@@ -136,9 +138,5 @@ public final class HyperfineStructure {
         if (twoJ < 1 || twoJ > 40) {
             throw new IllegalArgumentException("electronic angular momentum 2J must be 1 to 40, got " + twoJ);
         }
-    }
-
-    static String half(int two) {
-        return (two & 1) == 0 ? Integer.toString(two / 2) : two + "/2";
     }
 }

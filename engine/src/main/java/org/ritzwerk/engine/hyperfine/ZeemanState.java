@@ -1,5 +1,7 @@
 package org.ritzwerk.engine.hyperfine;
 
+import org.ritzwerk.engine.hydrogenic.Notation;
+
 /**
  * One eigenstate of a level's hyperfine-Zeeman Hamiltonian at a given field. m_F = m_J + m_I is
  * exact at every field; F is the zero-field label the state connects to (within one m_F, states
@@ -35,12 +37,12 @@ public record ZeemanState(int twoMF, int twoF, double energyHertz, double[] ampl
 
     /** @return m_F as text: {@code -1} or {@code 3/2} */
     public String mFLabel() {
-        return HyperfineStructure.half(twoMF);
+        return Notation.half(twoMF);
     }
 
     /** @return F as text */
     public String fLabel() {
-        return HyperfineStructure.half(twoF);
+        return Notation.half(twoF);
     }
 
     @Override
