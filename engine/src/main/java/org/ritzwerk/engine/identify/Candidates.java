@@ -11,28 +11,21 @@ import java.util.function.DoubleConsumer;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
-import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
-import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.AlkaliLines;
-import org.ritzwerk.medium.Medium;
-import org.ritzwerk.quantity.Unit;
 
 /**
  * The candidate lines for an identification in a vacuum-wavelength window, from every source the
  * engine knows: one-electron ions (their n -&gt; n' multiplets, entered as blends, or their
  * fine-structure components), alkali atoms (lines between the quantum-defect model's levels,
- * l &lt;= 3), and line lists (built-in sets or a user's own). Each line's expected strength is:
- * <ul>
- *   <li>one-electron ions: g_upper A, times exp(-(E_upper - E_ground) / kT) when an excitation
- *       temperature is given (Boltzmann populations, common practice);</li>
- *   <li>alkali atoms: (2 j_upper + 1) A;</li>
- *   <li>line lists: the list's relative intensity, else its Einstein A, else unknown;</li>
- *   <li>line sets ({@link Builder#lineSet}): as described there.</li>
- * </ul>
+ * l &lt;= 3), and line lists (built-in sets or a user's own). Every source enters as a
+ * {@link LineSet} (one line model), so each line's expected strength follows one rule:
+ * the relative intensity where given, else g_upper A, times exp(-(E_upper - E_ground) / kT)
+ * when an excitation temperature is given and the upper energy is known (Boltzmann
+ * populations, common practice); else unknown.
  * For the multiplets of one-electron ions the physics a plasma estimate needs (upper energy,
  * weight, A, frequency) is kept and found by {@link #multiplet(LineCatalog, int)}.
  *
@@ -138,7 +131,13 @@ public final class Candidates {
         public Builder hydrogenLike(Species species, HydrogenLikeModel model, int nMax, boolean components) {
             Objects.requireNonNull(species, "species");
             Objects.requireNonNull(model, "model");
-            sources.add(b -> addHydrogenLike(b, species, model, nMax, components));
+            sources.add(b -> {
+                HydrogenLikeLines generator = HydrogenLikeLines.of(model);
+                double fromHz = PhysicalConstants.C / hi;
+                double toHz = PhysicalConstants.C / lo;
+                addLineSet(b, LineSet.ofHydrogenLike(species, model, components ? generator.components(nMax, fromHz, toHz)
+                        : generator.multiplets(nMax, fromHz, toHz), components ? null : generator), model);
+            });
             return this;
         }
 
@@ -151,14 +150,8 @@ public final class Candidates {
         public Builder alkali(AlkaliAtom atom, int nMax, DoubleConsumer progress) {
             Objects.requireNonNull(atom, "atom");
             Objects.requireNonNull(progress, "progress");
-            sources.add(b -> {
-                for (AlkaliLines.Line line : AlkaliLines.window(atom, PhysicalConstants.C / hi, PhysicalConstants.C / lo,
-                        nMax, 3, 0, progress)) {
-                    b.add(atom.species(), line.vacuumWavelengthMetres(), 0, (line.upper().twoJ() + 1) * line.einsteinA(),
-                            line.label());
-                    count++;
-                }
-            });
+            sources.add(b -> addLineSet(b, LineSet.ofAlkali(atom, AlkaliLines.window(atom, PhysicalConstants.C / hi,
+                    PhysicalConstants.C / lo, nMax, 3, 0, progress)), null));
             return this;
         }
 
@@ -169,7 +162,7 @@ public final class Candidates {
          */
         public Builder lineList(LineList list) {
             Objects.requireNonNull(list, "list");
-            sources.add(b -> addLineList(b, list));
+            sources.add(b -> addLineSet(b, LineSet.of(list), null));
             return this;
         }
 
@@ -189,7 +182,7 @@ public final class Candidates {
          */
         public Builder lineSet(LineSet lines) {
             Objects.requireNonNull(lines, "lines");
-            sources.add(b -> addLineSet(b, lines));
+            sources.add(b -> addLineSet(b, lines, null));
             return this;
         }
 
@@ -211,56 +204,12 @@ public final class Candidates {
             return new Candidates(builder.build(), Map.copyOf(multiplets));
         }
 
-        private void addHydrogenLike(LineCatalog.Builder b, Species species, HydrogenLikeModel model, int nMax,
-                boolean components) {
-            HydrogenLikeLines generator = HydrogenLikeLines.of(model);
-            double fromHz = PhysicalConstants.C / hi;
-            double toHz = PhysicalConstants.C / lo;
-            LineTable table = components ? generator.components(nMax, fromHz, toHz)
-                    : generator.multiplets(nMax, fromHz, toHz);
-            double ground = model.energy(1, 0, 1);
-            // Each multiplet's fine-structure spread: the span of its components' vacuum
-            // wavelengths (components looked up in a window 1 % wider, so that a multiplet near
-            // an edge keeps all of them).
-            Map<Long, double[]> spreads = new HashMap<>();
-            if (!components) {
-                LineTable parts = generator.components(nMax, fromHz / 1.01, toHz * 1.01);
-                for (int i = 0; i < parts.size(); i++) {
-                    double w = PhysicalConstants.C / parts.frequency(i);
-                    double[] span = spreads.computeIfAbsent(pair(parts.upperN(i), parts.lowerN(i)),
-                            k -> new double[] {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY});
-                    span[0] = Math.min(span[0], w);
-                    span[1] = Math.max(span[1], w);
-                }
-            }
-            for (int i = 0; i < table.size(); i++) {
-                double strength = table.upperWeight(i) * table.einsteinA(i);
-                if (!Double.isNaN(excitationTemperature)) {
-                    int n = table.upperN(i);
-                    double upper = table.upperL(i) < 0 ? model.energy(n, 0, 1)
-                            : model.energy(n, table.upperL(i), table.upperTwoJ(i));
-                    strength *= Math.exp(-(upper - ground) / (PhysicalConstants.K * excitationTemperature));
-                }
-                String label = (components ? table.upperLabel(i) + " - " + table.lowerLabel(i) + " " : "")
-                        + table.lineName(i);
-                double vacuum = PhysicalConstants.C / table.frequency(i);
-                if (components) {
-                    b.add(species, vacuum, 0, strength, label);
-                } else {
-                    int n = table.upperN(i);
-                    multiplets.put(key(species, label), new Multiplet(model, n, table.lowerN(i),
-                            model.energy(n, 0, 1) - ground, table.upperWeight(i), table.einsteinA(i),
-                            table.frequency(i)));
-                    // A multiplet blends its fine-structure components: it may explain each of
-                    // them where the instrument half-resolves them, within their spread.
-                    double[] span = spreads.get(pair(n, table.lowerN(i)));
-                    b.addBlend(species, vacuum, 0, strength, label, span == null ? 0 : span[1] - span[0]);
-                }
-                count++;
-            }
-        }
-
-        private void addLineSet(LineCatalog.Builder b, LineSet lines) {
+        /**
+         * Enters the lines of a set in the window. {@code model} is given for a one-electron
+         * ion's own lines: their multiplets keep the physics a plasma estimate needs, and their
+         * components carry the series name after the levels.
+         */
+        private void addLineSet(LineCatalog.Builder b, LineSet lines, HydrogenLikeModel model) {
             for (int i = 0; i < lines.size(); i++) {
                 double vacuum = lines.vacuumWavelengthMetres(i);
                 if (vacuum < lo || vacuum > hi) {
@@ -275,10 +224,7 @@ public final class Candidates {
                     strength *= Math.exp(-lines.upperEnergyJoules(i).getAsDouble()
                             / (PhysicalConstants.K * excitationTemperature));
                 }
-                String label = lines.isMultiplet(i) ? lines.name(i)
-                        : lines.upperLabel(i).isPresent() && lines.lowerLabel(i).isPresent()
-                        ? lines.upperLabel(i).get() + " - " + lines.lowerLabel(i).get()
-                        : lines.species(i).notation() + " " + lines.name(i);
+                String label = label(lines, i, model != null);
                 if (lines.isMultiplet(i)) {
                     LineSet parts = lines.components(i);
                     double shortest = Double.POSITIVE_INFINITY;
@@ -287,6 +233,14 @@ public final class Candidates {
                         shortest = Math.min(shortest, parts.vacuumWavelengthMetres(k));
                         longest = Math.max(longest, parts.vacuumWavelengthMetres(k));
                     }
+                    if (model != null) {
+                        multiplets.put(key(lines.species(i), label), new Multiplet(model, lines.upperN(i).getAsInt(),
+                                lines.lowerN(i).getAsInt(), lines.upperEnergyJoules(i).getAsDouble(),
+                                lines.upperWeight(i).getAsInt(), lines.einsteinA(i).getAsDouble(),
+                                lines.frequencyHz(i)));
+                    }
+                    // A multiplet blends its fine-structure components: it may explain each of
+                    // them where the instrument half-resolves them, within their spread.
                     b.addBlend(lines.species(i), vacuum, sigma, strength, label, parts.isEmpty() ? 0 : longest - shortest);
                 } else {
                     b.add(lines.species(i), vacuum, sigma, strength, label);
@@ -295,25 +249,22 @@ public final class Candidates {
             }
         }
 
-        private static long pair(int upperN, int lowerN) {
-            return (long) upperN << 32 | lowerN;
-        }
-
-        private void addLineList(LineCatalog.Builder b, LineList list) {
-            double[] vacuum = SpectralArrays.wavelengths(list, Unit.METRE, Medium.vacuum());
-            for (int i = 0; i < list.size(); i++) {
-                if (vacuum[i] < lo || vacuum[i] > hi) {
-                    continue;
-                }
-                double sigma = list.uncertainty(i).isPresent()
-                        ? Math.abs(vacuum[i] / list.position(i)) * list.uncertainty(i).getAsDouble() : 0;
-                double strength = list.intensity(i).isPresent() ? list.intensity(i).getAsDouble()
-                        : list.einsteinA(i).orElse(Double.NaN);
-                String label = list.lower(i) != null && list.upper(i) != null ? list.upper(i) + " - " + list.lower(i)
-                        : list.info().id() + " " + list.position(i) + " " + list.unit().symbol();
-                b.add(list.species(i), vacuum[i], sigma, strength, label);
-                count++;
+        /**
+         * A line's catalogue label: a multiplet's name; else {@code "upper - lower"} where both
+         * levels are named (a one-electron component followed by its series name, e.g.
+         * {@code 3p3/2 - 2s1/2 H-alpha}); else the list's id and the position as listed; else the
+         * species and name.
+         */
+        private static String label(LineSet lines, int i, boolean seriesName) {
+            if (lines.isMultiplet(i)) {
+                return lines.name(i);
             }
+            if (lines.upperLabel(i).isPresent() && lines.lowerLabel(i).isPresent()) {
+                return lines.upperLabel(i).get() + " - " + lines.lowerLabel(i).get()
+                        + (seriesName ? " " + lines.name(i) : "");
+            }
+            return lines.source(i).dataSet().map(set -> set.id()).orElse(lines.species(i).notation()) + " "
+                    + lines.name(i);
         }
     }
 }

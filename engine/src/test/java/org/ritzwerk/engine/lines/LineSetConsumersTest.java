@@ -48,7 +48,8 @@ class LineSetConsumersTest {
             assertEquals(fromList.species(j), fromSet.species(j));
         }
         assertEquals("2p9 - 3s2", fromSet.label(1));
-        assertEquals("Ne I 585.2488 nm air", fromSet.label(0));
+        // A list line without level labels is named by its list and its position as listed.
+        assertEquals("test-ne 585.2488 nm air", fromSet.label(0));
     }
 
     @Test
