@@ -12,7 +12,6 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
-import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
@@ -25,7 +24,6 @@ import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.RydbergException;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
-import org.ritzwerk.quantity.Unit;
 
 /**
  * A described scene (emitters, plasma conditions, instrument, pixel grid) that renders into a
@@ -296,7 +294,7 @@ public final class Scene {
     public static final class Builder {
         private final PixelGrid grid;
         private final List<HydrogenLikeEmitter> ions = new ArrayList<>();
-        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter, RelativeList or RelativeSet
+        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter or RelativeSet
         private double temperature = 10_000;
         private double electronDensity = Double.NaN;
         private double velocity;
@@ -423,17 +421,12 @@ public final class Scene {
          */
         public Builder lineList(LineList list, Function<Species, Nucleus> nuclei) {
             Objects.requireNonNull(list, "list");
-            Objects.requireNonNull(nuclei, "nuclei");
-            boolean any = false;
-            for (int i = 0; i < list.size(); i++) {
-                any |= list.intensity(i).orElse(0) > 0;
-            }
-            if (!any) {
+            LineSet set = LineSet.of(list);
+            if (!anyIntensity(set)) {
                 throw new IllegalArgumentException("line list " + list.info().id()
                         + " gives no line an intensity; a scene needs them");
             }
-            lists.add(new RelativeList(list, nuclei));
-            return this;
+            return lineSet(set, nuclei);
         }
 
         /**
@@ -451,16 +444,21 @@ public final class Scene {
         public Builder lineSet(LineSet set, Function<Species, Nucleus> nuclei) {
             Objects.requireNonNull(set, "set");
             Objects.requireNonNull(nuclei, "nuclei");
-            boolean any = false;
-            for (int i = 0; i < set.size(); i++) {
-                any |= set.relativeIntensity(i).orElse(0) > 0;
-            }
-            if (!any) {
+            if (!anyIntensity(set)) {
                 throw new IllegalArgumentException("the line set " + set + " gives no line an intensity; a scene needs"
                         + " them");
             }
             lists.add(new RelativeSet(set, nuclei));
             return this;
+        }
+
+        private static boolean anyIntensity(LineSet set) {
+            for (int i = 0; i < set.size(); i++) {
+                if (set.relativeIntensity(i).orElse(0) > 0) {
+                    return true;
+                }
+            }
+            return false;
         }
 
         /**
@@ -675,16 +673,11 @@ public final class Scene {
                     out.add(fixed);
                 } else if (entry instanceof AlkaliEmitter alkali) {
                     out.add(alkaliLines(alkali));
-                } else if (entry instanceof RelativeSet set) {
-                    if (Double.isNaN(ionScale)) {
-                        ionScale = strongestIonLine();
-                    }
-                    out.addAll(relativeSetLines(set, ionScale));
                 } else {
                     if (Double.isNaN(ionScale)) {
                         ionScale = strongestIonLine();
                     }
-                    out.addAll(relativeLines((RelativeList) entry, ionScale));
+                    out.addAll(relativeSetLines((RelativeSet) entry, ionScale));
                 }
             }
             return out;
@@ -743,38 +736,7 @@ public final class Scene {
             return strongest;
         }
 
-        private List<ListEmitter> relativeLines(RelativeList r, double ionScale) {
-            LineList list = r.list();
-            double[] vacuum = SpectralArrays.wavelengths(list, Unit.NANOMETRE, Medium.vacuum());
-            double strongest = 0;
-            for (int i = 0; i < list.size(); i++) {
-                strongest = Math.max(strongest, list.intensity(i).orElse(0));
-            }
-            double scale = ionScale > 0 ? ionScale / strongest : 1;
-            List<ListEmitter> out = new ArrayList<>();
-            for (Species species : list.coveredSpecies()) {
-                double[] nm = new double[list.size()];
-                double[] photons = new double[list.size()];
-                String[] labels = new String[list.size()];
-                int n = 0;
-                for (int i = 0; i < list.size(); i++) {
-                    if (list.species(i).equals(species) && list.intensity(i).isPresent()) {
-                        nm[n] = vacuum[i];
-                        photons[n] = list.intensity(i).getAsDouble() * scale;
-                        labels[n] = species.notation() + " " + list.position(i) + " " + list.unit().symbol()
-                                + (list.medium() == null ? "" : " " + list.medium().label());
-                        n++;
-                    }
-                }
-                Nucleus nucleus = Objects.requireNonNull(r.nuclei().apply(species), "nucleus of " + species.notation());
-                double mass = nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
-                out.add(new ListEmitter(species.notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n), mass,
-                        Arrays.copyOf(labels, n)));
-            }
-            return out;
-        }
-
-        /** As {@link #relativeLines}, for a line set: one emitter per species, lines with an intensity. */
+        /** A line set with relative intensities: one emitter per species, lines with an intensity, scaled. */
         private List<ListEmitter> relativeSetLines(RelativeSet r, double ionScale) {
             LineSet set = r.set();
             double strongest = 0;
@@ -915,8 +877,6 @@ public final class Scene {
     private record AlkaliEmitter(AlkaliAtom atom, double abundance, double massKg) {
     }
 
-    private record RelativeList(LineList list, Function<Species, Nucleus> nuclei) {
-    }
 
     private record RelativeSet(LineSet set, Function<Species, Nucleus> nuclei) {
     }
