@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.function.Consumer;
 import java.util.function.DoubleConsumer;
+import java.util.function.Function;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
@@ -136,7 +137,7 @@ public final class Candidates {
                 double fromHz = PhysicalConstants.C / hi;
                 double toHz = PhysicalConstants.C / lo;
                 addLineSet(b, LineSet.ofHydrogenLike(species, model, components ? generator.components(nMax, fromHz, toHz)
-                        : generator.multiplets(nMax, fromHz, toHz), components ? null : generator), model);
+                        : generator.multiplets(nMax, fromHz, toHz), components ? null : generator), s -> model);
             });
             return this;
         }
@@ -151,7 +152,7 @@ public final class Candidates {
             Objects.requireNonNull(atom, "atom");
             Objects.requireNonNull(progress, "progress");
             sources.add(b -> addLineSet(b, LineSet.ofAlkali(atom, AlkaliLines.window(atom, PhysicalConstants.C / hi,
-                    PhysicalConstants.C / lo, nMax, 3, 0, progress)), null));
+                    PhysicalConstants.C / lo, nMax, 3, 0, progress)), s -> null));
             return this;
         }
 
@@ -162,7 +163,7 @@ public final class Candidates {
          */
         public Builder lineList(LineList list) {
             Objects.requireNonNull(list, "list");
-            sources.add(b -> addLineSet(b, LineSet.of(list), null));
+            sources.add(b -> addLineSet(b, LineSet.of(list), s -> null));
             return this;
         }
 
@@ -182,7 +183,25 @@ public final class Candidates {
          */
         public Builder lineSet(LineSet lines) {
             Objects.requireNonNull(lines, "lines");
-            sources.add(b -> addLineSet(b, lines, null));
+            sources.add(b -> addLineSet(b, lines, s -> null));
+            return this;
+        }
+
+        /**
+         * As {@link #lineSet(LineSet)}, with the level models of the set's one-electron ions:
+         * their n -&gt; n' multiplets then keep the physics a plasma estimate needs
+         * ({@link #multiplet}), and their fine-structure components carry the series name after
+         * the levels, exactly as {@link #hydrogenLike} enters them.
+         *
+         * @param lines  the lines
+         * @param models the level model of each one-electron species of the set (the one the set
+         *               was computed with), or null for a species without one
+         * @return this builder
+         */
+        public Builder lineSet(LineSet lines, Function<Species, HydrogenLikeModel> models) {
+            Objects.requireNonNull(lines, "lines");
+            Objects.requireNonNull(models, "models");
+            sources.add(b -> addLineSet(b, lines, models));
             return this;
         }
 
@@ -205,11 +224,11 @@ public final class Candidates {
         }
 
         /**
-         * Enters the lines of a set in the window. {@code model} is given for a one-electron
-         * ion's own lines: their multiplets keep the physics a plasma estimate needs, and their
+         * Enters the lines of a set in the window. Where {@code models} gives a one-electron
+         * ion's model, its multiplets keep the physics a plasma estimate needs, and its
          * components carry the series name after the levels.
          */
-        private void addLineSet(LineCatalog.Builder b, LineSet lines, HydrogenLikeModel model) {
+        private void addLineSet(LineCatalog.Builder b, LineSet lines, Function<Species, HydrogenLikeModel> models) {
             for (int i = 0; i < lines.size(); i++) {
                 double vacuum = lines.vacuumWavelengthMetres(i);
                 if (vacuum < lo || vacuum > hi) {
@@ -224,6 +243,7 @@ public final class Candidates {
                     strength *= Math.exp(-lines.upperEnergyJoules(i).getAsDouble()
                             / (PhysicalConstants.K * excitationTemperature));
                 }
+                HydrogenLikeModel model = lines.species(i).isHydrogenLike() ? models.apply(lines.species(i)) : null;
                 String label = label(lines, i, model != null);
                 if (lines.isMultiplet(i)) {
                     LineSet parts = lines.components(i);
@@ -233,7 +253,9 @@ public final class Candidates {
                         shortest = Math.min(shortest, parts.vacuumWavelengthMetres(k));
                         longest = Math.max(longest, parts.vacuumWavelengthMetres(k));
                     }
-                    if (model != null) {
+                    if (model != null && lines.upperN(i).isPresent() && lines.lowerN(i).isPresent()
+                            && lines.upperEnergyJoules(i).isPresent() && lines.upperWeight(i).isPresent()
+                            && lines.einsteinA(i).isPresent()) {
                         multiplets.put(key(lines.species(i), label), new Multiplet(model, lines.upperN(i).getAsInt(),
                                 lines.lowerN(i).getAsInt(), lines.upperEnergyJoules(i).getAsDouble(),
                                 lines.upperWeight(i).getAsInt(), lines.einsteinA(i).getAsDouble(),

@@ -13,6 +13,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.calibrate.LampSet;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.LineCatalog;
@@ -72,6 +73,35 @@ class LineSetConsumersTest {
         // (3d5/2-2p3/2 to 3s1/2-2p1/2, common practice), between 0.01 and 0.03 nm.
         assertEquals(longest - shortest, catalog.blendSpread(0), 0.0);
         assertTrue(catalog.blendSpread(0) > 0.01e-9 && catalog.blendSpread(0) < 0.03e-9, "" + catalog.blendSpread(0));
+    }
+
+    @Test
+    void aQueriedSetWithItsModelsIsTheOneElectronPathWithItsPlasmaPhysics() {
+        HydrogenLikeModel model = Sources.hydrogen(Tier.QED);
+        // The Balmer window 380-700 nm, n <= 12, multiplets with their components.
+        double lo = 380e-9;
+        double hi = 700e-9;
+        LineSet balmer = LineQuery.defaults().withWindowHz(PhysicalConstants.C / hi, PhysicalConstants.C / lo)
+                .withMaxN(12).withMultiplets(true).withMultipletComponents(true)
+                .run(LineSources.none().withHydrogenLike(Sources.H, model));
+        Candidates direct = Candidates.inWindow(lo, hi).hydrogenLike(Sources.H, model, 12, false).build();
+        Candidates queried = Candidates.inWindow(lo, hi).lineSet(balmer, s -> model).build();
+        LineCatalog a = direct.catalog();
+        LineCatalog b = queried.catalog();
+        assertEquals(a.size(), b.size());
+        // Balmer alpha (656 nm) to 9 -> 2 (383.5 nm); 10 -> 2 lies at 379.8 nm (common practice).
+        assertEquals(7, a.size());
+        for (int j = 0; j < a.size(); j++) {
+            // Source: Candidates.Builder.hydrogenLike, the one-electron path, on the same model.
+            assertEquals(a.wavelength(j), b.wavelength(j), 0.0);
+            assertEquals(a.strength(j), b.strength(j), 0.0);
+            assertEquals(a.label(j), b.label(j));
+            assertEquals(a.blendSpread(j), b.blendSpread(j), 0.0);
+            assertEquals(direct.multiplet(a, j), queried.multiplet(b, j));
+        }
+        // Without the models the lines are the same but carry no plasma physics.
+        Candidates bare = Candidates.inWindow(lo, hi).lineSet(balmer).build();
+        assertEquals(null, bare.multiplet(bare.catalog(), 0));
     }
 
     @Test
