@@ -814,6 +814,7 @@ def main():
         limit, limit_provenance, limit_source, limit_second = LIMITS[atom_id]
         levels = parse_levels(levels_text)
         uncertainty = {(n, l, tj): 0.5 * last_digit_unit(e) for n, l, tj, e in levels}
+        half_unit = dict(uncertainty)  # of the digits as the ASD prints them (check 1's allowance)
         if atom_id in SHARED:
             levels, uncertainty = shifted_levels(atom_id, levels)
         valid_from = {}
@@ -826,7 +827,7 @@ def main():
             within = []
             for n, e, text in measured:
                 fit = ritz(limit, r_m, coefficients, n)
-                allowed = TOLERANCE_PER_CM + 0.5 * last_digit_unit(text)
+                allowed = TOLERANCE_PER_CM + half_unit[(n, l, two_j)]
                 good = abs(fit - e) <= allowed
                 reg = regular.get(n)
                 reg_text = "-" if reg is None else "%+.4f%s" % (reg, "" if abs(reg) <= REGULARITY_PER_CM else " !")
