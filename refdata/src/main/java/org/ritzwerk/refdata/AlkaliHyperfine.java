@@ -381,6 +381,34 @@ public final class AlkaliHyperfine {
                 upper.twoJ(), p.upper, ZeemanStructure.landeG(upper.l(), upper.twoJ()), gI, p.centroid, fieldTesla);
     }
 
+    /**
+     * The ionisation limit measured from one hyperfine level F of the ground level: the limit above
+     * the ground level's hyperfine-free centroid (the atom's, from its quantum-defect set) minus
+     * that F level's Casimir shift. The singly charged core of an alkali atom is a closed shell
+     * (J = 0) without hyperfine structure, so the limit itself is one level.
+     *
+     * @param context the data context (the atom's limit, the nuclear spin)
+     * @param species an isotope with constants for its ground level
+     * @param twoF    2 F of a ground hyperfine level, e.g. 2 for Rb-87 F = 1
+     * @return the limit above that level, Hz
+     * @throws ReferenceDataException when the ground level has no hyperfine constants here
+     * @throws IllegalArgumentException when the ground level has no level with that F
+     */
+    public double ionisationLimitHertz(DataContext context, Species species, int twoF) {
+        Objects.requireNonNull(context, "context");
+        AlkaliAtom atom = context.alkaliAtom(species);
+        State ground = atom.groundState();
+        LevelConstants c = constants(species, ground).orElseThrow(() -> missing(species, ground));
+        for (HyperfineLevel f : HyperfineStructure.levels(context.nucleus(species).twiceSpin(), ground.twoJ(),
+                c.constants())) {
+            if (f.twoF() == twoF) {
+                return atom.ionisationLimitPerCm() * PhysicalConstants.C * 100 - f.shiftHertz();
+            }
+        }
+        throw new IllegalArgumentException("the ground level " + ground.label() + " of " + species.notation()
+                + " has no level with 2F = " + twoF);
+    }
+
     private record Pair(int twoI, HyperfineConstants lower, HyperfineConstants upper, double centroid) {
     }
 

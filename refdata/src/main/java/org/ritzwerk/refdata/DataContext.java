@@ -289,6 +289,15 @@ public final class DataContext {
     }
 
     /**
+     * @return the built-in hyperfine constants of alkali Rydberg series, scaled as n*^-3 from
+     *         published measurements (built-in only, like {@link #alkaliHyperfine()}); their F
+     *         levels take this context for nuclear spins and the atoms' levels
+     */
+    public RydbergHyperfine rydbergHyperfine() {
+        return RydbergHyperfine.builtIn();
+    }
+
+    /**
      * @param species a neutral alkali atom (any isotope)
      * @return the built-in Marinescu et al. (1994) core model potential of the element (model
      *         potentials are not a kind of data set; a registry cannot replace them)

@@ -31,7 +31,9 @@ import org.ritzwerk.data.QuantumDefects;
  * # source: the papers
  * # provenance: published
  * # version: 2011
- * # limit-per-cm: 33690.804799
+ * # limit-per-cm: 33690.804799                    (or the next two)
+ * # limit: 1010029.1646 GHz                       (the limit in its publication's unit and digits)
+ * # limit-from: -4271.676631815 MHz              (optional: the level it is measured from)
  * # limit-provenance: from-memory
  * # limit-source: ...
  * # limit-check: ...                              (optional: how the limit was checked)
@@ -44,6 +46,11 @@ import org.ritzwerk.data.QuantumDefects;
  * l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,checked
  * 0,1/2,3.1311807,0.1787,0,0,0,10,from-memory,Mack et al. ...,check 1: ...
  * </pre>
+ * The ionisation limit, above the hyperfine centroid of the ground level, is given either as
+ * {@code limit-per-cm} (cm^-1) or as {@code limit}: a number and its unit ({@code cm-1}, {@code GHz},
+ * {@code MHz} or {@code kHz}), the digits and unit its publication prints, converted here exactly
+ * (c = 299 792 458 m/s); {@code limit-from}, in the same units, is the energy above that centroid
+ * of the level the published limit is measured from (a ground hyperfine level F; 0 when absent).
  * One row per series (l, j = l +- 1/2); trailing zero coefficients are dropped; the last two
  * columns are free text (the row's citation, and how its numbers were checked) and may contain
  * commas. The mass-corrected Rydberg constant is not in
@@ -61,9 +68,12 @@ public final class QuantumDefectFiles {
             List.of("l", "j", "d0", "d2", "d4", "d6", "d8", "valid-from-n", "provenance", "source", "checked");
 
     private static final List<String> REQUIRED = List.of("id", "title", "species", "source", "provenance", "version",
-            "limit-per-cm", "limit-provenance", "limit-source");
+            "limit-provenance", "limit-source");
+    /** The units {@code limit} and {@code limit-from} may carry. */
+    public static final List<String> LIMIT_UNITS = List.of("cm-1", "GHz", "MHz", "kHz");
     private static final Set<String> KNOWN = Set.of("id", "title", "species", "source", "provenance", "version",
-            "limit-per-cm", "limit-provenance", "limit-source", "limit-check", "core-dipole-polarizability-au",
+            "limit-per-cm", "limit", "limit-from", "limit-provenance", "limit-source", "limit-check",
+            "core-dipole-polarizability-au",
             "core-quadrupole-polarizability-au", "core-source", "core-check", "levels", "note");
 
     /**
@@ -171,6 +181,19 @@ public final class QuantumDefectFiles {
                 problems.add(new DataProblem(source, Math.max(1, number), 0, "qd.missing-key", "header key '" + key
                         + "' is missing", ""));
             }
+        }
+        boolean perCm = header.containsKey("limit-per-cm");
+        boolean published = header.containsKey("limit");
+        if (!perCm && !published) {
+            problems.add(new DataProblem(source, Math.max(1, number), 0, "qd.missing-key", "header key 'limit-per-cm' "
+                    + "(or 'limit' with its unit) is missing", ""));
+        } else if (perCm && published) {
+            problems.add(new DataProblem(source, headerLine.get("limit"), 3, "qd.two-limits", "give the limit once: "
+                    + "'limit-per-cm' or 'limit', not both", header.get("limit")));
+        } else if (perCm && header.containsKey("limit-from")) {
+            problems.add(new DataProblem(source, headerLine.get("limit-from"), 3, "qd.bad-limit", "'limit-from' "
+                    + "goes with 'limit' (a published limit in its own unit), not with 'limit-per-cm'",
+                    header.get("limit-from")));
         }
         if (series.isEmpty() && problems.isEmpty()) {
             problems.add(new DataProblem(source, Math.max(1, number), 0, "qd.no-series", "no series rows", ""));
@@ -346,7 +369,10 @@ public final class QuantumDefectFiles {
                     "species must be a neutral isotope such as Rb-87 I, got " + species, header.get("species")));
             return null;
         }
-        double limit = number(header, headerLine, "limit-per-cm", source, problems);
+        double limit = header.containsKey("limit-per-cm") ? number(header, headerLine, "limit-per-cm", source, problems)
+                : wavenumber(header, headerLine, "limit", source, problems)
+                        + (header.containsKey("limit-from")
+                                ? wavenumber(header, headerLine, "limit-from", source, problems) : 0.0);
         Provenance.Kind provenanceKind = kind(header, headerLine, "provenance", source, problems);
         Provenance.Kind limitKind = kind(header, headerLine, "limit-provenance", source, problems);
         CorePolarizability core = null;
@@ -432,6 +458,35 @@ public final class QuantumDefectFiles {
         problems.add(new DataProblem(source, lines.getOrDefault(key, 1), 0, "qd.bad-number", text == null
                 ? "header '" + key + "' is missing" : key + " is not a finite number: '" + text + "'",
                 text == null ? "" : text));
+        return Double.NaN;
+    }
+
+    /**
+     * A header value "number unit" (one of {@link #LIMIT_UNITS}) in cm^-1: frequencies divided by
+     * 100 c exactly, as the D-line file does.
+     */
+    private static double wavenumber(Map<String, String> header, Map<String, Integer> lines, String key,
+            String source, List<DataProblem> problems) {
+        String text = header.get(key);
+        String[] parts = text.strip().split("\\s+");
+        if (parts.length == 2 && LIMIT_UNITS.contains(parts[1])) {
+            try {
+                double value = Double.parseDouble(parts[0]);
+                if (Double.isFinite(value) && parts[0].matches("[-+]?\\d+(\\.\\d+)?")) {
+                    return switch (parts[1]) {
+                        case "cm-1" -> value;
+                        case "GHz" -> value * 1e9 / (PhysicalConstants.C * 100);
+                        case "MHz" -> value * 1e6 / (PhysicalConstants.C * 100);
+                        default -> value * 1e3 / (PhysicalConstants.C * 100);
+                    };
+                }
+            } catch (NumberFormatException e) {
+                // reported below
+            }
+        }
+        problems.add(new DataProblem(source, lines.getOrDefault(key, 1), 3, "qd.bad-limit", key + " must be a decimal "
+                + "number and one of the units " + String.join(", ", LIMIT_UNITS) + ", such as '1010029.1646 GHz'; got '"
+                + text + "'", text));
         return Double.NaN;
     }
 

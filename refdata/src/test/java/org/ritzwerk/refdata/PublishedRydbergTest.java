@@ -79,6 +79,27 @@ class PublishedRydbergTest {
     }
 
     @Test
+    void caesiumLevelsAboveSixPCarryTheirWavenumbersNotAnOldElectronVoltConversion() {
+        // Cs 6s 2S1/2 -> 8s 2S1/2 from the two-photon frequency comb measurement of P. Fendel, S. D. Bergeson,
+        // Th. Udem and T. W. Haensch, Opt. Lett. 32, 701 (2007), doi:10.1364/OL.32.000701 (from memory):
+        // F = 3 -> F' = 3 at 364 507 238.363 MHz per photon. The hyperfine-free interval adds the ground
+        // level's F = 3 offset, -9/16 of 9 192.631 770 MHz (the SI second), and removes the 8s F = 3 offset,
+        // -9/16 of 4 A(8s), A(8s) = 219.12 MHz (from memory; the published values of that era spread by
+        // 0.02 MHz, 0.05 MHz here). Checked: the result is 0.12 MHz (1.6e-10) from the level the levels file
+        // holds (NIST ASD, 24 317.149 400 cm-1, from memory), two independent recollections agreeing.
+        // The levels once read from a copy in eV converted with an older eV-to-cm-1 factor were 4.4e-8
+        // (32 MHz) low here; 1 MHz separates the two.
+        double centroidMHz = 2 * 364507238.363 - 9.0 / 16 * 9192.631770 + 9.0 / 16 * 4 * 219.12;
+        AlkaliAtom cs = atom("Cs-133 I");
+        assertEquals(centroidMHz * 1e6, cs.frequencyHz(State.of(6, 0, 1), State.of(8, 0, 1)), 1e6);
+        // 7s 2S1/2 as the ASD prints it in cm-1 (18 535.5286, from memory; the levels file's own digits, so a
+        // pin, not a second measurement): the old conversion put it at 18 535.527 826, 0.0008 cm-1 lower, 16
+        // times the half unit of its last digit.
+        assertEquals(18535.5286, cs.frequencyHz(State.of(6, 0, 1), State.of(7, 0, 1)) / (PhysicalConstants.C * 100),
+                5e-5);
+    }
+
+    @Test
     void ionisationLimits() {
         // Mack et al., Phys. Rev. A 83, 052515 (2011): 1 010 029.1646(3) GHz = 33 690.946 44 cm-1 from
         // 5S1/2 F = 1, which lies 5/8 of 6 834.682 610 904 MHz (Steck, from memory) below the centroid
@@ -88,8 +109,9 @@ class PublishedRydbergTest {
         // Deiglmayr et al., Phys. Rev. A 93, 013424 (2016): 31 406.467 732 5(14) cm-1 (read in the paper,
         // arXiv:1601.08005)
         assertEquals(31406.4677325, atom("Cs-133 I").ionisationLimitPerCm(), 1e-7);
-        // NIST ASD ionisation energies (from memory): Na 41 449.451, K 35 009.814, Li 43 487.114 cm-1;
-        // the sets carry the limits their quantum defects were fitted with, within 0.04 cm-1 of these.
+        // NIST ASD ionisation energies (from memory): Na 41 449.451, K 35 009.814, Li 43 487.114 cm-1. Na
+        // now carries the ASD value itself and K-39 Peper et al. 2019's (IonisationLimitsTest pins both
+        // exactly); Li-7 still carries the limit its quantum defects were fitted with, 0.036 cm-1 above.
         assertEquals(41449.451, atom("Na-23 I").ionisationLimitPerCm(), 0.02);
         assertEquals(35009.814, atom("K-39 I").ionisationLimitPerCm(), 0.01);
         assertEquals(43487.114, atom("Li-7 I").ionisationLimitPerCm(), 0.04);

@@ -22,10 +22,15 @@ Where the numbers come from, and how sure we are of them.
     provenance from-memory with its paper as the citation, and checked against the measured
     levels (check 1) and, where two papers measured the same series, against each other.
   * Ionisation limits: the Cs limit of Deiglmayr et al. (2016) was read in the paper
-    (arXiv:1601.08005, abstract); the others are from memory with their papers as citations,
-    checked by check 1 and against a second value: for K the limit of Peper et al. (2019), read in
-    its abstract; for Li and Na the NIST ASD ionisation energies (from memory); for Rb-85 the Rb-87
-    limit; for Cs, Shen et al. (2024), read in its abstract.
+    (arXiv:1601.08005, abstract) and the K-39 limit of Peper et al. (2019) in its abstract; Na is the
+    NIST ASD ionisation energy (from memory; the limit of the Na quantum defects' paper, 330 MHz
+    below it, is the second value); the others are from memory with their papers as citations,
+    checked by check 1 and against a second value: for Li the NIST ASD ionisation energy (from
+    memory); for Rb-85 the Rb-87 limit; for Cs, Shen et al. (2024), read in its abstract; for K-39
+    the limit of the K quantum defects' paper.  Each is written in the unit and with the digits its
+    publication prints (PUBLISHED_LIMITS; Rb-87 in GHz from its ground F = 1 level), which the
+    reader converts exactly.  Li-6, K-40 and K-41 get their partner's limit with the normal mass
+    shift (isotope_limit), written in cm^-1 with the size of the neglected shifts beside it.
   * Measured levels: NIST Atomic Spectra Database (ASD) energy levels of the natural element,
     in cm^-1 as the ASD prints them, from memory (ASD version not re-checked).  Each row is
     checked: the ground level is the zero; the resonance levels (lowest p1/2, p3/2) against
@@ -101,6 +106,8 @@ GOY_1986 = ("P. Goy, J. Liang, M. Gross and S. Haroche, Phys. Rev. A 34, 2889 (1
             "doi:10.1103/PhysRevA.34.2889")
 MARINESCU_1994 = ("M. Marinescu, H. R. Sadeghpour and A. Dalgarno, Phys. Rev. A 49, 982 (1994), "
                   "doi:10.1103/PhysRevA.49.982")
+PEPER_2019 = ("M. Peper, F. Helmrich, J. Butscher, J. A. Agner, H. Schmutz, F. Merkt and J. Deiglmayr, "
+              "Phys. Rev. A 100, 012501 (2019), doi:10.1103/PhysRevA.100.012501, arXiv:1907.02776")
 SHEN_2024 = ("P. Shen et al., Phys. Rev. Lett. 133, 233005 (2024), doi:10.1103/PhysRevLett.133.233005")
 NIST_ASD = "NIST Atomic Spectra Database (A. Kramida, Yu. Ralchenko, J. Reader and NIST ASD Team)"
 
@@ -174,11 +181,13 @@ RB87_GROUND_SPLITTING_GHZ = 6.834682610904
 ASD_IE = "NIST ASD ionisation energy (from memory)"
 LIMITS = {
     "li-7": (43487.15, "from-memory", LN_1983, (43487.114, ASD_IE)),
-    "na-23": (41449.44, "from-memory", LN_1983, (41449.451, ASD_IE)),
-    "k-39": (35009.8139375, "from-memory", "weighted average of the series limits in " + LN_1983,
-             (35009.8139710, "M. Peper, F. Helmrich, J. Butscher, J. A. Agner, H. Schmutz, F. Merkt and J. Deiglmayr, "
-              "Phys. Rev. A 100, 012501 (2019), arXiv:1907.02776: 35009.8139710(22) cm-1 (read in the paper's "
-              "abstract)")),
+    "na-23": (41449.451, "from-memory", ASD_IE + ": 41 449.451 cm-1 (ASD version not re-checked); the limit "
+              "the quantum defects of " + LN_1983 + " were fitted with, 41 449.44 cm-1 (from memory), is 330 MHz "
+              "below it",
+              (41449.44, LN_1983 + " (from memory); 41 449.451 - 41 449.44 = 0.011 cm-1 = 329.8 MHz, the 330 MHz "
+               "by which issue 17 found the earlier limit below the evaluated one")),
+    "k-39": (35009.8139710, "published", PEPER_2019 + ": 35009.8139710(22) cm-1 (read in the paper's abstract)",
+             (35009.8139375, "the weighted average of the series limits in " + LN_1983 + " (from memory)")),
     "rb-85": (33690.79890, "from-memory", LI_2003, None),
     "rb-87": ((RB87_LIMIT_GHZ_FROM_F1 - 5.0 / 8 * RB87_GROUND_SPLITTING_GHZ) / (C / 1e7), "from-memory",
               MACK_2011 + ": 1010029.1646(3) GHz from 5S1/2 F=1; minus 5/8 of the ground hyperfine splitting "
@@ -188,6 +197,30 @@ LIMITS = {
                "arXiv:1601.08005)", (31406.46775148, SHEN_2024 + ": 31406.46775148(14) cm-1 (read in its "
                "abstract; not applied)")),
 }
+
+# Limits stored in the unit and with the digits their publication prints ('# limit:' and, for a
+# limit measured from a ground hyperfine level, '# limit-from:' its energy above the centroid);
+# the reader converts them exactly.  Every limit not listed here is derived (isotope shift) and
+# written as limit-per-cm.  Rb-87: F = 1 lies 5/8 of 6 834.682 610 904 MHz below the centroid,
+# -4 271.676 631 815 MHz exactly (decimal arithmetic on the published digits).
+PUBLISHED_LIMITS = {
+    "li-7": ("43487.15 cm-1", None),
+    "na-23": ("41449.451 cm-1", None),
+    "k-39": ("35009.8139710 cm-1", None),
+    "rb-85": ("33690.79890 cm-1", None),
+    "rb-87": ("1010029.1646 GHz", "-4271.676631815 MHz"),
+    "cs-133": ("31406.4677325 cm-1", None),
+}
+
+
+def published_limit_per_cm(atom_id):
+    """The published limit of PUBLISHED_LIMITS in cm^-1, converted as QuantumDefectFiles converts it."""
+    def wavenumber(text):
+        value, unit = text.split()
+        return float(value) * {"cm-1": 1.0, "GHz": 1e9 / (C * 100), "MHz": 1e6 / (C * 100)}[unit]
+    limit, origin = PUBLISHED_LIMITS[atom_id]
+    return wavenumber(limit) + (wavenumber(origin) if origin else 0.0)
+
 
 # Core (ion) dipole (a0^3) and quadrupole (a0^5) polarizabilities, for l >= 4, with their source.
 BERL_2020 = ("S. Berl et al., \"Core polarizability of rubidium using spectroscopy of the ng to nh, ni Rydberg "
@@ -521,8 +554,23 @@ Cs 55 15.6440 3 3.01048361 1.40000001 -3.20036138 0.00034538 1.99969677
 # their resonance levels (the D lines) come from their own measurements in d-lines.csv, which refdata
 # puts in place of the natural element's.
 SHARED = {"li-6": "li-7", "k-40": "k-39", "k-41": "k-39"}
+
+
+def isotope_limit(atom_id):
+    """The limit of a SHARED isotope: its natural partner's, scaled by the ratio of the two R_M.
+
+    The normal mass shift (common practice: a binding energy scales with the reduced mass of electron
+    and core, the ratio of the isotopes' R_M).  The specific mass shift and the field shift of the
+    limit are not published for these isotopes and are not applied; their size on the D lines (the
+    measured isotope shift minus its normal mass shift, d-lines.csv) is stated in the source."""
+    natural = SHARED[atom_id]
+    return LIMITS[natural][0] * rydberg_per_cm(MASS_U[atom_id]) / rydberg_per_cm(MASS_U[natural])
+
+
+# measured D1 isotope shifts (MHz, d-lines.csv, make_d_lines.py: check I) minus their normal mass shift,
+# the part the normal mass shift leaves out on the resonance line; written beside each shifted limit
+RESIDUAL_D1_MHZ = {}
 for _shared, _natural in SHARED.items():
-    LIMITS[_shared] = LIMITS[_natural]
     CORE[_shared] = CORE[_natural]
 
 ATOMS = [
@@ -707,7 +755,44 @@ def check_model_potentials():
     return results
 
 
+def d1_mhz(species):
+    """The D1 centroid of d-lines.csv (beside this script) in MHz."""
+    with open("d-lines.csv") as f:
+        for line in f:
+            fields = line.split(",")
+            if fields[0] == species and fields[1] == "D1":
+                factor = {"MHz": 1.0, "kHz": 1e-3, "GHz": 1e3, "cm-1": C / 1e4}[fields[4]]
+                return float(fields[2]) * factor
+    raise KeyError(species)
+
+
+def shift_limits():
+    """LIMITS of the SHARED isotopes: the natural partner's published limit with the normal mass shift."""
+    for atom_id, natural in SHARED.items():
+        sym_iso = "%s-%s I" % (atom_id.split("-")[0].capitalize(), atom_id.split("-")[1])
+        sym_nat = "%s-%s I" % (natural.split("-")[0].capitalize(), natural.split("-")[1])
+        ratio = rydberg_per_cm(MASS_U[atom_id]) / rydberg_per_cm(MASS_U[natural])
+        measured = d1_mhz(sym_iso) - d1_mhz(sym_nat)
+        normal = d1_mhz(sym_nat) * (ratio - 1)
+        residual = measured - normal
+        RESIDUAL_D1_MHZ[atom_id] = residual
+        limit = isotope_limit(atom_id)
+        shift_mhz = (limit - LIMITS[natural][0]) * C / 1e4
+        source = ("the %s limit (%s) with the normal mass shift, times R_M(%s) / R_M(%s) = 1 %+.6e (common "
+                  "practice; atomic masses of nuclear/isotopes.csv): %+.1f MHz; the specific mass and field shifts "
+                  "of the limit are not published for this isotope and not applied: on the D1 line (d-lines.csv) "
+                  "they are the measured isotope shift %+.3f MHz minus its normal mass shift %+.3f MHz = %+.1f MHz, "
+                  "the size of the error to expect here" % (
+                      sym_nat.replace(" I", ""), PUBLISHED_LIMITS[natural][0], sym_iso.replace(" I", ""),
+                      sym_nat.replace(" I", ""), ratio - 1, shift_mhz, measured, normal, residual))
+        LIMITS[atom_id] = (limit, LIMITS[natural][1], source,
+                           (LIMITS[natural][0], "the natural partner's limit (%s)" % PUBLISHED_LIMITS[natural][0]))
+
+
 def main():
+    for atom_id, (text, origin) in PUBLISHED_LIMITS.items():
+        assert abs(published_limit_per_cm(atom_id) - LIMITS[atom_id][0]) < 1e-9, atom_id
+    shift_limits()
     model_results = check_model_potentials()
     model_check = {(fields[0], int(fields[3])): rel for fields, state, model, measured, rel in model_results}
     report = ["# Checks of the built-in Rydberg data, written by make_rydberg_data.py (see its docstring)",
@@ -728,6 +813,10 @@ def main():
         r_m = rydberg_per_cm(MASS_U[atom_id])
         limit, limit_provenance, limit_source, limit_second = LIMITS[atom_id]
         levels = parse_levels(levels_text)
+        uncertainty = {(n, l, tj): 0.5 * last_digit_unit(e) for n, l, tj, e in levels}
+        half_unit = dict(uncertainty)  # of the digits as the ASD prints them (check 1's allowance)
+        if atom_id in SHARED:
+            levels, uncertainty = shifted_levels(atom_id, levels)
         valid_from = {}
         row_check = {}
         level_check = {}
@@ -738,7 +827,7 @@ def main():
             within = []
             for n, e, text in measured:
                 fit = ritz(limit, r_m, coefficients, n)
-                allowed = TOLERANCE_PER_CM + 0.5 * last_digit_unit(text)
+                allowed = TOLERANCE_PER_CM + half_unit[(n, l, two_j)]
                 good = abs(fit - e) <= allowed
                 reg = regular.get(n)
                 reg_text = "-" if reg is None else "%+.4f%s" % (reg, "" if abs(reg) <= REGULARITY_PER_CM else " !")
@@ -780,7 +869,11 @@ def main():
                         d50, 2 * r_m / 50 ** 3 * abs(d50))
             row_check[(l, two_j)] = text
         # limit check
-        if limit_second is not None:
+        if atom_id in SHARED:
+            limit_check = "check 1 (the series meet the measured levels with this limit); %s is %+.1f MHz from " \
+                          "this one (the normal mass shift); reader and script convert alike (LimitsTest)" % (
+                              limit_second[1], (limit_second[0] - limit) * C / 1e4)
+        elif limit_second is not None:
             limit_check = "check 1 (the series meet the measured levels with this limit); %s: %s, %+.6f cm-1 from " \
                           "this value" % (limit_second[1], fmt(limit_second[0]), limit_second[0] - limit) \
                 if limit_second[0] != 31406.46775148 else \
@@ -817,7 +910,7 @@ def main():
                "# source: " + "; ".join(papers) + " (the paper of each series is named per row)",
                "# provenance: from-memory",
                "# version: %s" % version,
-               "# limit-per-cm: %s" % fmt(limit),
+               ] + limit_lines(atom_id, limit) + [
                "# limit-provenance: %s" % limit_provenance,
                "# limit-source: %s" % limit_source,
                "# limit-check: %s" % limit_check,
@@ -852,18 +945,22 @@ def main():
         lv = ["# ritzwerk-levels 1",
               "# id: levels-%s" % atom_id,
               "# title: %s measured levels below the quantum-defect fits" % species,
-              "# source: %s, %s I energy levels (natural element), from memory" % (NIST_ASD, symbol),
+              "# source: %s, %s I energy levels (natural element), from memory%s" % (
+                  NIST_ASD, symbol, "; with the normal mass shift to this isotope (common practice)"
+                  if atom_id in SHARED else ""),
               "# provenance: from-memory",
               "# version: NIST ASD (version not re-checked)",
               "# energy-unit: cm-1",
-              "# note: energies in cm-1 as the ASD prints them; uncertainty is half a unit in the last digit; "
-              "isotope shifts (below 0.01 cm-1 here) not applied; column note says how each level was checked "
+              ("# note: energies in cm-1 as the ASD prints them; uncertainty is half a unit in the last digit; "
+               "isotope shifts (below 0.01 cm-1 here) not applied; " if atom_id not in SHARED else
+               "# note: energies in cm-1, the partner's ASD levels with the normal mass shift (see below); ") +
+              "column note says how each level was checked "
               "(D line: against %s; check 1: published Rydberg-Ritz formula minus level; check 2: residual "
               "from the series' own regularity; fit-residuals.txt); written by make_rydberg_data.py"
               % d_line_source + shared_note(atom_id),
               "species,label,energy,uncertainty,j,note"]
         for e, n, l, two_j, text in keep:
-            u = 0.0 if e == 0 else 0.5 * last_digit_unit(text)
+            u = 0.0 if e == 0 else uncertainty[(n, l, two_j)]
             if e == 0:
                 check = "ground level (the zero)"
             else:
@@ -911,17 +1008,49 @@ def main():
         f.write("\n".join(report) + "\n")
 
 
+def shifted_levels(atom_id, levels):
+    """The partner's measured levels with the normal mass shift (times the ratio of the R_M), for a SHARED isotope.
+
+    Returns the levels (energies as text with three more decimals than the partner's, so the scaling is
+    not rounded away) and their uncertainties: the partner's half unit in the last digit plus the part of
+    the D1 isotope shift the normal mass shift leaves out, scaled by E / E(D1) (an estimate of the
+    neglected specific mass and field shifts, not a bound)."""
+    natural = SHARED[atom_id]
+    ratio = rydberg_per_cm(MASS_U[atom_id]) / rydberg_per_cm(MASS_U[natural])
+    species = "%s-%s I" % (atom_id.split("-")[0].capitalize(), atom_id.split("-")[1])
+    d1_per_cm = d1_mhz(species) * 1e4 / C
+    residual_per_cm = abs(RESIDUAL_D1_MHZ[atom_id]) * 1e4 / C
+    out, uncertainty = [], {}
+    for n, l, tj, e in levels:
+        decimals = len(e.split(".")[1]) if "." in e else 0
+        value = float(e)
+        out.append((n, l, tj, "0" if value == 0 else "%.*f" % (decimals + 3, value * ratio)))
+        uncertainty[(n, l, tj)] = 0.5 * last_digit_unit(e) + residual_per_cm * value / d1_per_cm
+    return out, uncertainty
+
+
+def limit_lines(atom_id, limit):
+    """The header lines of the limit: as published (unit and digits), or derived in cm^-1."""
+    if atom_id not in PUBLISHED_LIMITS:
+        return ["# limit-per-cm: %s" % fmt(limit)]
+    text, origin = PUBLISHED_LIMITS[atom_id]
+    return ["# limit: %s" % text] + (["# limit-from: %s" % origin] if origin else [])
+
+
 def shared_note(atom_id):
     """The header note of a set shared with the natural element (empty for the others)."""
     if atom_id not in SHARED:
         return ""
-    return ("; SHARED with the natural element: the series, limit, core polarizabilities and measured levels "
-            "are those of quantum-defects-%s / levels-%s (no isotope-specific data at hand), only R_M is this "
-            "isotope's; its resonance levels come from its own D lines (d-lines.csv)" % (SHARED[atom_id],
-                                                                                            SHARED[atom_id])) + (
-        "; for Li-6 the isotope shift of the other levels (about 0.35 cm-1, like the D lines' 10.5 GHz) is NOT "
-        "applied: the 'below 0.01 cm-1' above does not hold for Li-6, whose levels other than 2p are good to "
-        "about 0.4 cm-1 only" if atom_id == "li-6" else "")
+    return ("; SHARED with the natural element: the series, core polarizabilities and measured levels "
+            "are those of quantum-defects-%s / levels-%s (no isotope-specific data at hand), only R_M and the "
+            "limit (the partner's with the normal mass shift, see limit-source) are this isotope's; its resonance "
+            "levels come from its own D lines (d-lines.csv)" % (SHARED[atom_id], SHARED[atom_id])) + (
+        "; the measured levels other than the resonance levels are the partner's times R_M(this isotope) / "
+        "R_M(partner) (the normal mass shift, as for the limit; three more decimals so the scaling is kept); "
+        "their uncertainty adds to the partner's half unit the part of the D1 isotope shift the normal mass "
+        "shift leaves out (%+.1f MHz), scaled by E / E(D1): an estimate of the specific mass and field shifts "
+        "not applied%s" % (RESIDUAL_D1_MHZ[atom_id], " (for Li-6 about 0.16 cm-1 at the D lines' energy and 0.4 "
+                                                  "cm-1 near the limit)" if atom_id == "li-6" else ""))
 
 
 def polarization_defect(n, l, alpha_d, alpha_q):

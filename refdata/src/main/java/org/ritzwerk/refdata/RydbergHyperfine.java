@@ -1,0 +1,230 @@
+package org.ritzwerk.refdata;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.math.BigDecimal;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.Provenance;
+import org.ritzwerk.engine.hyperfine.HyperfineConstants;
+import org.ritzwerk.engine.hyperfine.HyperfineLevel;
+import org.ritzwerk.engine.hyperfine.HyperfineStructure;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+
+/**
+ * Hyperfine constants of alkali Rydberg states, from published measurements scaled with the
+ * effective principal quantum number: {@code A(n) = A_ref (n*_ref / n*)^3} from a constant measured
+ * at one level of the series, or {@code A(n) = Abar / n*^3} from a published scaled constant
+ * (likewise B), with {@code n* = sqrt(R_M / (E_limit - E))} of the isotope's own levels and limit
+ * (the n^-3 scaling of the valence electron's density at the nucleus; common practice). The
+ * measured constants of the ground and first p levels are {@link AlkaliHyperfine}'s; this class
+ * serves the levels of a series from its {@code from-n} on. The built-in file is
+ * {@code rydberg/rydberg-hyperfine.csv} (format {@value #FORMAT} 1), each row with its source and
+ * how it was checked. Immutable and thread-safe.
+ */
+public final class RydbergHyperfine {
+
+    /** The format name. */
+    public static final String FORMAT = "ritzwerk-rydberg-hyperfine";
+    /** The columns, in order. */
+    public static final List<String> COLUMNS = List.of("species", "l", "j", "kind", "reference-n", "a", "a-uncertainty",
+            "b", "b-uncertainty", "unit", "from-n", "provenance", "source", "checked");
+    /** Units the constants may be stored in. */
+    public static final List<String> UNITS = List.of("MHz", "GHz");
+
+    private static volatile RydbergHyperfine builtIn;
+
+    /**
+     * One series' scaling, as its source gives it.
+     *
+     * @param species     the isotope
+     * @param l           orbital angular momentum of the series
+     * @param twoJ        2 j
+     * @param kind        {@code level} (a, b measured at level {@code referenceN}) or {@code scaled}
+     *                    (a, b are the published constants times n*^3)
+     * @param referenceN  n of the measured level for {@code level}, 0 for {@code scaled}
+     * @param aText       a as printed
+     * @param bText       b as printed, empty for j = 1/2
+     * @param unit        {@code MHz} or {@code GHz}
+     * @param aHertz      a in Hz
+     * @param bHertz      b in Hz (0 for j = 1/2)
+     * @param fromN       the lowest n the scaling serves
+     * @param provenance  published (read in the source) or from-memory
+     * @param source      the measurement
+     * @param checked     how the value was checked
+     */
+    public record Series(Species species, int l, int twoJ, String kind, int referenceN, String aText, String bText,
+            String unit, double aHertz, double bHertz, int fromN, Provenance.Kind provenance, String source,
+            String checked) {
+    }
+
+    private final List<Series> series;
+
+    private RydbergHyperfine(List<Series> series) {
+        this.series = series;
+    }
+
+    /** @return the built-in data, read on first use (thread-safe) */
+    public static RydbergHyperfine builtIn() {
+        RydbergHyperfine data = builtIn;
+        if (data == null) {
+            synchronized (RydbergHyperfine.class) {
+                data = builtIn;
+                if (data == null) {
+                    String name = "rydberg/rydberg-hyperfine.csv";
+                    try (InputStream in = RydbergHyperfine.class.getResourceAsStream(name)) {
+                        if (in == null) {
+                            throw new IllegalStateException("built-in data file missing from the jar: " + name);
+                        }
+                        data = read(in, name);
+                    } catch (IOException e) {
+                        throw new UncheckedIOException(e.getMessage(), e);
+                    }
+                    builtIn = data;
+                }
+            }
+        }
+        return data;
+    }
+
+    /**
+     * Reads a file of format {@value #FORMAT} 1 (a format line, {@code # key: value} header lines
+     * with id, source and provenance, the column row, one row per series; see the built-in file).
+     *
+     * @param in   the bytes (UTF-8); closed here
+     * @param name the file's name, for messages
+     * @return the data
+     * @throws ReferenceDataException naming file, line and problem
+     */
+    public static RydbergHyperfine read(InputStream in, String name) {
+        List<Series> out = new ArrayList<>();
+        for (BuiltInCsv.Row row : BuiltInCsv.read(in, name, FORMAT, COLUMNS, true, List.of("id", "source",
+                "provenance")).rows()) {
+            String[] f = row.f();
+            try {
+                Species species = Species.parse(f[0]);
+                int l = Integer.parseInt(f[1]);
+                if (!f[2].matches("\\d{1,3}/2")) {
+                    throw new IllegalArgumentException("j must be a half-integer like 3/2, got '" + f[2] + "'");
+                }
+                int twoJ = Integer.parseInt(f[2].substring(0, f[2].length() - 2));
+                if (l < 0 || Math.abs(2 * l - twoJ) != 1) {
+                    throw new IllegalArgumentException("j must be l +- 1/2, got l = " + l + ", j = " + f[2]);
+                }
+                String kind = f[3];
+                int referenceN;
+                if (kind.equals("level")) {
+                    referenceN = Integer.parseInt(f[4]);
+                    if (referenceN <= l) {
+                        throw new IllegalArgumentException("reference-n must exceed l, got " + f[4]);
+                    }
+                } else if (kind.equals("scaled")) {
+                    if (!f[4].isEmpty()) {
+                        throw new IllegalArgumentException("reference-n is empty for kind 'scaled', got '" + f[4] + "'");
+                    }
+                    referenceN = 0;
+                } else {
+                    throw new IllegalArgumentException("kind must be 'level' or 'scaled', got '" + kind + "'");
+                }
+                String unit = f[9];
+                if (!UNITS.contains(unit)) {
+                    throw new IllegalArgumentException("unit must be one of " + UNITS + ", got '" + unit + "'");
+                }
+                double toHertz = unit.equals("GHz") ? 1e9 : 1e6;
+                double a = new BigDecimal(f[5]).doubleValue() * toHertz;
+                new BigDecimal(f[6]);
+                boolean hasB = !f[7].isEmpty();
+                if (hasB != (twoJ > 1)) {
+                    throw new IllegalArgumentException("b is given exactly for j > 1/2");
+                }
+                double b = hasB ? new BigDecimal(f[7]).doubleValue() * toHertz : 0;
+                if (hasB) {
+                    new BigDecimal(f[8]);
+                }
+                int fromN = Integer.parseInt(f[10]);
+                if (fromN <= l) {
+                    throw new IllegalArgumentException("from-n must exceed l, got " + f[10]);
+                }
+                Series s = new Series(species, l, twoJ, kind, referenceN, f[5], f[7], unit, a, b, fromN,
+                        Provenance.Kind.fromId(f[11]), f[12], f[13]);
+                if (out.stream().anyMatch(x -> x.species().equals(species) && x.l() == l && x.twoJ() == twoJ)) {
+                    throw new IllegalArgumentException("second row for " + species.notation() + " l = " + l + ", j = "
+                            + f[2]);
+                }
+                out.add(s);
+            } catch (RuntimeException e) {
+                throw BuiltInCsv.bad(name, row.number(), e.getMessage(), row.raw());
+            }
+        }
+        return new RydbergHyperfine(List.copyOf(out));
+    }
+
+    /** @return every series, in file order; immutable */
+    public List<Series> series() {
+        return series;
+    }
+
+    /**
+     * @param species an isotope
+     * @param l       orbital angular momentum
+     * @param twoJ    2 j
+     * @return the series' scaling, or empty when none is published here
+     */
+    public Optional<Series> series(Species species, int l, int twoJ) {
+        return series.stream().filter(s -> s.species().equals(species) && s.l() == l && s.twoJ() == twoJ).findFirst();
+    }
+
+    /**
+     * The scaled constants of one level.
+     *
+     * @param context the data context (the isotope's levels and limit give n*)
+     * @param species an isotope
+     * @param state   a level, e.g. 60s 2S1/2
+     * @return A and B in Hz, or empty when the series has no scaling here or n is below its from-n
+     */
+    public Optional<HyperfineConstants> constants(DataContext context, Species species, State state) {
+        Objects.requireNonNull(context, "context");
+        Objects.requireNonNull(state, "state");
+        Optional<Series> row = series(species, state.l(), state.twoJ());
+        if (row.isEmpty() || state.n() < row.get().fromN()) {
+            return Optional.empty();
+        }
+        Series s = row.get();
+        AlkaliAtom atom = context.alkaliAtom(species);
+        double nStar = atom.level(state).effectiveN();
+        double scale = s.kind().equals("level")
+                ? Math.pow(atom.level(State.of(s.referenceN(), s.l(), s.twoJ())).effectiveN() / nStar, 3)
+                : Math.pow(nStar, -3);
+        return Optional.of(new HyperfineConstants(s.aHertz() * scale, s.bHertz() * scale, s.source() + " ("
+                + s.provenance().id() + "), scaled as n*^-3"));
+    }
+
+    /**
+     * The F levels of a Rydberg level from its scaled constants (Casimir formula).
+     *
+     * @param context the data context (nuclear spin, the atom's hyperfine-free level)
+     * @param species an isotope
+     * @param state   a level, e.g. 60s 2S1/2
+     * @return its F levels by rising F, energies above the ground level's hyperfine-free centroid
+     *         in cm^-1; empty when {@link #constants} is
+     */
+    public List<AlkaliHyperfine.FLevel> fLevels(DataContext context, Species species, State state) {
+        Optional<HyperfineConstants> c = constants(context, species, state);
+        if (c.isEmpty()) {
+            return List.of();
+        }
+        int twoI = context.nucleus(species).twiceSpin();
+        double centroid = context.alkaliAtom(species).level(state).energyPerCm();
+        List<AlkaliHyperfine.FLevel> out = new ArrayList<>();
+        for (HyperfineLevel f : HyperfineStructure.levels(twoI, state.twoJ(), c.get())) {
+            out.add(new AlkaliHyperfine.FLevel(f.twoF(), centroid + f.shiftHertz() / (PhysicalConstants.C * 100)));
+        }
+        return List.copyOf(out);
+    }
+}

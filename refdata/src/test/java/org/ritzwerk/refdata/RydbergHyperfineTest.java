@@ -1,0 +1,124 @@
+package org.ritzwerk.refdata;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.ByteArrayInputStream;
+import java.nio.charset.StandardCharsets;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hyperfine.HyperfineConstants;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+
+/**
+ * Rydberg-state hyperfine constants scaled as n*^-3 from published measurements, and the
+ * ionisation limit from a ground hyperfine level. Sources beside each check.
+ */
+class RydbergHyperfineTest {
+
+    private static final DataContext CONTEXT = DataContext.builtIn();
+    private static final RydbergHyperfine DATA = CONTEXT.rydbergHyperfine();
+    private static final Species CS = Species.parse("Cs-133 I");
+    private static final Species RB87 = Species.parse("Rb-87 I");
+
+    private static double aMHz(Species species, State state) {
+        return DATA.constants(CONTEXT, species, state).orElseThrow().aHertz() / 1e6;
+    }
+
+    @Test
+    void aMeasuredReferenceLevelGetsItsOwnConstantBack() {
+        // Cs 7s 2S1/2: A = 545.818(16) MHz (G. Yang et al., arXiv:1601.02749, read in the abstract)
+        assertEquals(545.818, aMHz(CS, State.of(7, 0, 1)), 1e-9);
+        // Rb-87 7s 2S1/2: A = 319.759 MHz (H.-C. Chui et al., Opt. Lett. 30, 842 (2005), from memory)
+        assertEquals(319.759, aMHz(RB87, State.of(7, 0, 1)), 1e-9);
+    }
+
+    @Test
+    void theScaledConstantsFollowNStarToTheMinusThree() {
+        // Cs nP1/2 and nP3/2: scaled A = 3.760(26) GHz and 0.718(27) GHz, B = -0.084(102) GHz from n = 41-55
+        // (R. Song et al., arXiv:2410.09520, read in the abstract): at 50p the constants are these over n*^3
+        AlkaliAtom cs = CONTEXT.alkaliAtom(CS);
+        double p12 = cs.level(State.of(50, 1, 1)).effectiveN();
+        double p32 = cs.level(State.of(50, 1, 3)).effectiveN();
+        assertEquals(3760 / Math.pow(p12, 3), aMHz(CS, State.of(50, 1, 1)), 1e-9);
+        HyperfineConstants c = DATA.constants(CONTEXT, CS, State.of(50, 1, 3)).orElseThrow();
+        assertEquals(718e6 / Math.pow(p32, 3), c.aHertz(), 1e-3);
+        assertEquals(-84e6 / Math.pow(p32, 3), c.bHertz(), 1e-3);
+        // 50p1/2 of Cs: n* = 46.4, A = 37.6 kHz; the F = 4 - 3 splitting 4A = 150 kHz
+        assertEquals(0.0376, aMHz(CS, State.of(50, 1, 1)), 0.0005);
+        // Cs 7p1/2 A = 94.38(6) MHz (arXiv:2206.09409, read in the abstract): the Rydberg-range constant gives
+        // it 3.7 % high, as the file's column checked says (the scaling is for the Rydberg range)
+        assertEquals(94.38, aMHz(CS, State.of(7, 1, 1)), 0.045 * 94.38);
+        // Cs 8s from the 7s constant: within 2 % of A(8s) = 219.12 MHz (J. E. Stalnaker et al., Phys. Rev. A 81,
+        // 043840 (2010), from memory); measured 1.8 % lower than the scaling gives
+        assertEquals(219.12, aMHz(CS, State.of(8, 0, 1)), 0.02 * 219.12);
+    }
+
+    @Test
+    void fLevelsOfARydbergStateSitEitherSideOfItsCentroid() {
+        State s = State.of(60, 0, 1);
+        List<AlkaliHyperfine.FLevel> f = DATA.fLevels(CONTEXT, RB87, s);
+        assertEquals(2, f.size());
+        assertEquals(2, f.get(0).twoF());
+        assertEquals(4, f.get(1).twoF());
+        double centroid = CONTEXT.alkaliAtom(RB87).level(s).energyPerCm();
+        double a = aMHz(RB87, s) * 1e6 / (PhysicalConstants.C * 100);
+        // I = 3/2, J = 1/2: F = 1 at -5A/4, F = 2 at +3A/4 (Casimir), splitting 2A
+        assertEquals(centroid - 1.25 * a, f.get(0).energyPerCm(), 1e-9);
+        assertEquals(2 * a, f.get(1).energyPerCm() - f.get(0).energyPerCm(), 2e-11); // two 33 000 cm-1 doubles apart
+        // Rb-87 60s: A n*^3 = 18.34 GHz at n* = 56.87, A = 99.7 kHz
+        assertEquals(0.0997, aMHz(RB87, s), 0.0005);
+    }
+
+    @Test
+    void levelsWithoutAScalingOrBelowItsRangeHaveNone() {
+        assertTrue(DATA.constants(CONTEXT, CS, State.of(40, 2, 5)).isEmpty(), "no Cs nD scaling here");
+        assertTrue(DATA.constants(CONTEXT, CS, State.of(6, 0, 1)).isEmpty(), "6s is below from-n (measured elsewhere)");
+        assertTrue(DATA.constants(CONTEXT, Species.parse("Na-23 I"), State.of(40, 0, 1)).isEmpty());
+        assertTrue(DATA.fLevels(CONTEXT, CS, State.of(40, 2, 5)).isEmpty());
+    }
+
+    @Test
+    void theIonisationLimitFromAGroundHyperfineLevel() {
+        // Rb-87 from 5s F = 1: 1 010 029.1646(3) GHz (M. Mack et al., Phys. Rev. A 83, 052515 (2011), from
+        // memory), to the double's resolution
+        AlkaliHyperfine hfs = CONTEXT.alkaliHyperfine();
+        assertEquals(1010029.1646e9, hfs.ionisationLimitHertz(CONTEXT, RB87, 2), 1e3);
+        // F = 2 lies 6 834.682 610 904 MHz above F = 1: the limit from it is that much lower
+        assertEquals(6834.682610904e6, hfs.ionisationLimitHertz(CONTEXT, RB87, 2)
+                - hfs.ionisationLimitHertz(CONTEXT, RB87, 4), 1e3);
+        // Cs from F = 3 and F = 4: 9 192 631 770 Hz apart (the SI second); F = 3 lies 9/16 of it below the centroid
+        double centroidHz = CONTEXT.alkaliAtom(CS).ionisationLimitPerCm() * PhysicalConstants.C * 100;
+        assertEquals(centroidHz + 9.0 / 16 * 9192631770.0, hfs.ionisationLimitHertz(CONTEXT, CS, 6), 1e3);
+        assertEquals(9192631770.0, hfs.ionisationLimitHertz(CONTEXT, CS, 6) - hfs.ionisationLimitHertz(CONTEXT, CS, 8),
+                1e3);
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> hfs.ionisationLimitHertz(CONTEXT, CS, 4));
+        assertTrue(e.getMessage().contains("has no level with 2F = 4"), e.getMessage());
+    }
+
+    private static final String HEAD = "# ritzwerk-rydberg-hyperfine 1\n# id: t\n# source: s\n# provenance: from-memory\n"
+            + String.join(",", RydbergHyperfine.COLUMNS) + "\n";
+
+    @Test
+    void aBadRowIsRefusedWithFileAndLine() {
+        String[][] bad = {
+            {"Cs-133 I,0,1/2,level,7,545.818,0.016,,,THz,7,published,s,c", "unit must be one of [MHz, GHz]"},
+            {"Cs-133 I,0,3/2,level,7,545.818,0.016,,,MHz,7,published,s,c", "j must be l +- 1/2"},
+            {"Cs-133 I,0,1/2,lvl,7,545.818,0.016,,,MHz,7,published,s,c", "kind must be 'level' or 'scaled'"},
+            {"Cs-133 I,1,3/2,scaled,,0.718,0.027,,,GHz,7,published,s,c", "b is given exactly for j > 1/2"},
+            {"Cs-133 I,1,1/2,scaled,7,3.760,0.026,,,GHz,7,published,s,c", "reference-n is empty for kind 'scaled'"},
+            {"Cs-133 I,0,1/2,level,7,five,0.016,,,MHz,7,published,s,c", "Character f is neither"},
+        };
+        for (String[] row : bad) {
+            ReferenceDataException e = assertThrows(ReferenceDataException.class, () -> RydbergHyperfine.read(
+                    new ByteArrayInputStream((HEAD + row[0] + "\n").getBytes(StandardCharsets.UTF_8)), "rh.csv"));
+            assertTrue(e.getMessage().startsWith("rh.csv:6: "), e.getMessage());
+            assertTrue(e.getMessage().contains(row[1]), e.getMessage());
+        }
+    }
+}
