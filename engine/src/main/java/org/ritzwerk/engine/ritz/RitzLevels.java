@@ -129,6 +129,15 @@ public final class RitzLevels {
         return new RitzLevels(species, info, label, energy, s, designation, copy);
     }
 
+    /**
+     * @param other the species to give these levels (e.g. an isotope for a natural element's list)
+     * @return the same levels under that species
+     */
+    public RitzLevels withSpecies(Species other) {
+        return new RitzLevels(Objects.requireNonNull(other, "other"), info, label, energy, sigma, designation,
+                covariance);
+    }
+
     /** @return the species */
     public Species species() {
         return species;
