@@ -12,6 +12,17 @@ import org.ritzwerk.atom.State;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.identify.Candidates;
+import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.IdentificationSearch;
+import org.ritzwerk.engine.identify.Identifier;
+import org.ritzwerk.engine.identify.PeakList;
+import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.engine.lines.LineSources;
+import org.ritzwerk.engine.ritz.RitzLevels;
+import org.ritzwerk.engine.ritz.RitzLines;
+import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.engine.lines.LineQuery;
 import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
@@ -91,5 +102,59 @@ class HeliumLevelsTest {
                     "d" + 2 * k);
         }
         assertEquals(0.0, fit.chiSquare(), 1e-6);
+    }
+
+    @Test
+    void heliumLinesAreIdentifiedInASyntheticDischarge() {
+        // An invented discharge: the He I singlet lines of the built-in levels and the H I Balmer lines
+        // in 380-700 nm, in air, each moved by a seeded error of 2e-4 nm (its stated sigma); the He
+        // lines come as Ritz lines under the E1 and LS rules, H I from its one-electron model
+        DataContext data = DataContext.builtIn();
+        RitzLevels levels = RitzLevels.of(data.levelList(HE).orElseThrow(), HE);
+        LineSet he = LineQuery.defaults()
+                .withWindow(Wavelength.ofNanometres(380, Medium.air()), Wavelength.ofNanometres(700, Medium.air()))
+                .run(LineSources.none().withLevels(levels, RitzLines.defaults().withLsRules(true)));
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(data.nucleus(Species.parse("H I")), Tier.QED);
+        Candidates balmer = Candidates.inWindow(380e-9, 700e-9).hydrogenLike(Species.parse("H I"), hydrogen, 8, false)
+                .build();
+        java.util.List<Double> positions = new java.util.ArrayList<>();
+        java.util.List<String> expected = new java.util.ArrayList<>();
+        for (int i = 0; i < he.size(); i++) {
+            if (he.upperLabel(i).orElseThrow().endsWith("1P1") || he.upperLabel(i).orElseThrow().endsWith("1D2")
+                    || he.upperLabel(i).orElseThrow().endsWith("1S0")) {
+                positions.add(he.wavelengthMetres(i, Medium.air()) * 1e9);
+                expected.add(he.upperLabel(i).orElseThrow() + " - " + he.lowerLabel(i).orElseThrow());
+            }
+        }
+        int heLines = positions.size();
+        for (int j = 0; j < balmer.catalog().size(); j++) {
+            positions.add(Medium.air().fromVacuum(balmer.catalog().wavelength(j)) * 1e9);
+            expected.add(null);
+        }
+        java.util.Random r = new java.util.Random(2026);
+        int n = positions.size();
+        double[] nm = new double[n];
+        double[] sigma = new double[n];
+        double[] intensity = new double[n];
+        for (int k = 0; k < n; k++) {
+            nm[k] = positions.get(k) + 2e-4 * r.nextGaussian();
+            sigma[k] = 2e-4;
+            intensity[k] = 100;
+        }
+        PeakList peaks = PeakList.of(nm, sigma, intensity, Unit.NANOMETRE, Medium.air());
+        IdentificationSearch search = IdentificationSearch.of(Identifier.of(Tolerance.parse("4 sigma")));
+        double[] window = search.candidateWindow(peaks);
+        Candidates candidates = Candidates.inWindow(window[0], window[1])
+                .hydrogenLike(Species.parse("H I"), hydrogen, 8, false).lineSet(he).build();
+        Identification result = search.run(peaks, candidates.catalog()).identification();
+        assertEquals(5, heLines, "singlet lines in the window (396.5, 492.2, 501.6, 504.8, 667.8 nm)");
+        for (int k = 0; k < heLines; k++) {
+            assertEquals(Identification.MATCHED, result.status(k), "peak " + nm[k] + " nm");
+            assertEquals(expected.get(k), candidates.catalog().label(result.line(k)), "peak " + nm[k] + " nm");
+        }
+        for (int k = heLines; k < n; k++) {
+            assertEquals(Identification.MATCHED, result.status(k), "Balmer peak " + nm[k] + " nm");
+            assertTrue(!candidates.catalog().label(result.line(k)).contains("1s"), "a Balmer peak stays H I");
+        }
     }
 }
