@@ -140,11 +140,18 @@ public final class LevelOptimum {
     /**
      * @param species the species the levels belong to
      * @return the optimised levels with their covariance, for {@link RitzLines} (J from the labels)
+     * @throws RitzException ({@link RitzException#BAD_VALUE}) when a level came out below 0, i.e. below
+     *         the ground level (the reference held was not the ground level, or at the wrong energy)
      */
     public RitzLevels levels(Species species) {
         RitzLevels.Builder b = RitzLevels.builder(species);
         for (int i = 0; i < energy.length; i++) {
-            b.add(problem.levels().get(i), Math.max(0, energy[i]), uncertaintyPerCm(i), -1);
+            if (energy[i] < 0) {
+                throw new RitzException(RitzException.BAD_VALUE, "level '" + problem.levels().get(i) + "' came out at "
+                        + energy[i] + " cm-1, below the ground level; hold the ground level (or give the reference "
+                        + "its energy above it) to make a level list");
+            }
+            b.add(problem.levels().get(i), energy[i], uncertaintyPerCm(i), -1);
         }
         return b.build().withCovariance(covariance);
     }

@@ -148,5 +148,13 @@ class LevelOptimizerTest {
             ratio.add(levels.differenceSigma(u, l) / Math.hypot(fit.uncertaintyPerCm(u), fit.uncertaintyPerCm(l)));
         }
         assertTrue(ratio.stream().anyMatch(x -> Math.abs(x - 1) > 0.05), "correlations matter for some line");
+        // a reference that is not the lowest level leaves levels below 0: no level list from that
+        MeasuredLines.Builder above = MeasuredLines.builder(label(3), 0);
+        for (int k = 0; k < PAIRS.length; k++) {
+            above.add(label(PAIRS[k][0]), label(PAIRS[k][1]), TRUE[PAIRS[k][0]] - TRUE[PAIRS[k][1]], SIGMA[k]);
+        }
+        LevelOptimum shifted = LevelOptimizer.defaults().optimize(above.build());
+        RitzException below = assertThrows(RitzException.class, () -> shifted.levels(Species.parse("Fe I")));
+        assertTrue(below.getMessage().contains("below the ground level"), below.getMessage());
     }
 }
