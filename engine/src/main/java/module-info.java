@@ -20,6 +20,7 @@ module org.ritzwerk.engine {
     exports org.ritzwerk.engine.lines;
     exports org.ritzwerk.engine.plasma;
     exports org.ritzwerk.engine.profile;
+    exports org.ritzwerk.engine.ritz;
     exports org.ritzwerk.engine.rydberg;
     exports org.ritzwerk.engine.synth;
 }

@@ -15,5 +15,5 @@ module org.ritzwerk.refdata {
 
     provides org.ritzwerk.data.ReferenceDataProvider with org.ritzwerk.refdata.NuclearProvider,
             org.ritzwerk.refdata.LampProvider, org.ritzwerk.refdata.HydrogenLikeProvider,
-            org.ritzwerk.refdata.RydbergProvider;
+            org.ritzwerk.refdata.RydbergProvider, org.ritzwerk.refdata.LevelProvider;
 }

@@ -45,6 +45,7 @@ class ModuleExportsTest {
                     "org.ritzwerk.engine.lines",
                     "org.ritzwerk.engine.plasma",
                     "org.ritzwerk.engine.profile",
+                    "org.ritzwerk.engine.ritz",
                     "org.ritzwerk.engine.rydberg",
                     "org.ritzwerk.engine.synth"),
             "refdata", Set.of(

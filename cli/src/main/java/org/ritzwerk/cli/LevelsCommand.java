@@ -103,8 +103,13 @@ final class LevelsCommand implements Callable<Integer> {
             throw new OptionException("--l-max must be 0 to 50, got " + lMax);
         }
         double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
-        Ions.Atoms atoms = ions.resolveAtoms(data.context());
+        LevelSets.Split levelSets = LevelSets.split(data.context(), ions.species);
+        Ions.Atoms atoms = levelSets.levels().isEmpty() ? ions.resolveAtoms(data.context())
+                : Ions.atoms(data.context(), levelSets.others(), ions.model);
         OptionRules rules = new OptionRules(spec);
+        rules.refuseUnless("--lifetimes", levelSets.levels().isEmpty(), "for species with a level list "
+                + levelSets.levels().stream().map(l -> l.species().notation()).toList() + " (a level list gives no"
+                + " lifetimes)");
         boolean alkali = !atoms.alkalis().isEmpty();
         rules.refuseUnless("--temperature", lifetimes, "without --lifetimes (it sets the black-body temperature of the"
                 + " effective lifetimes)");
@@ -162,6 +167,7 @@ final class LevelsCommand implements Callable<Integer> {
         for (AlkaliAtom atom : atoms.alkalis()) {
             addAlkali(table, atom, columns.size());
         }
+        LevelSets.addRows(table, levelSets.levels(), columns.size());
         table.finish();
         return 0;
     }

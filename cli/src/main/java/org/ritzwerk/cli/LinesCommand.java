@@ -107,7 +107,9 @@ final class LinesCommand implements Callable<Integer> {
         }
         OptionRules.range("--min-a", minA, 0, true, Double.MAX_VALUE, "a rate of 0 s^-1 or more (e.g. 1e6)");
         boolean air = AxisMedium.isAir(medium);
-        Ions.Atoms atoms = ions.resolveAtoms(data.context());
+        LevelSets.Split levelSets = LevelSets.split(data.context(), ions.species);
+        Ions.Atoms atoms = levelSets.levels().isEmpty() ? ions.resolveAtoms(data.context())
+                : Ions.atoms(data.context(), levelSets.others(), ions.model);
         OptionRules rules = new OptionRules(spec);
         boolean single = transition != null || ladder != null;
         String singleOption = transition != null ? "--transition" : "--ladder";
@@ -162,7 +164,8 @@ final class LinesCommand implements Callable<Integer> {
         }
         LineQuery.Progress progress = progress();
         LineSet lines = LineSet.concat(List.of(query.withMultiplets(multiplets).run(ionSources, progress),
-                query.withMaxL(lMax).run(alkaliSources, progress))).sortedByFallingFrequency();
+                query.withMaxL(lMax).run(alkaliSources, progress), query.run(LevelSets.sources(levelSets.levels()))))
+                .sortedByFallingFrequency();
         Table output = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),
@@ -183,8 +186,8 @@ final class LinesCommand implements Callable<Integer> {
             double airMetres = AlkaliTables.air(vacuumMetres);
             output.add(lines.species(i).notation(), lines.upperLabel(i).orElse(null), lines.lowerLabel(i).orElse(null),
                     lines.name(i), (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
-                    lines.wavenumberPerCm(i), lines.frequencyHz(i), lines.einsteinA(i).getAsDouble(),
-                    lines.oscillatorStrength(i).getAsDouble(), lines.lineStrengthAtomicUnits(i).getAsDouble(),
+                    lines.wavenumberPerCm(i), lines.frequencyHz(i), lines.einsteinA(i).orElse(Double.NaN),
+                    lines.oscillatorStrength(i).orElse(Double.NaN), lines.lineStrengthAtomicUnits(i).orElse(Double.NaN),
                     lines.source(i).model());
         }
         output.finish();

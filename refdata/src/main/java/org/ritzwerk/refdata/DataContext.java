@@ -46,6 +46,9 @@ import org.ritzwerk.quantity.Unit;
  * ({@link QuantumDefectFiles#rydbergPerCm(double)}). The atoms use the Coulomb approximation;
  * {@link #modelPotential(Species)} gives the built-in core potential for
  * {@link AlkaliAtom#withModelPotential}.</li>
+ * <li><b>Level lists</b> ({@link #levelList(Species)}, {@link #levelSpecies()}): the
+ * {@link DataKind#LEVELS} set of highest precedence for a species, whose lines come by the Ritz
+ * combination principle.</li>
  * <li><b>Line lists</b> ({@link #lampLines(Species)}, {@link #lineList(String)}): the lamp set of
  * highest precedence for a species; a set by id, or a user's file by path.</li>
  * </ul>
@@ -320,6 +323,43 @@ public final class DataContext {
                     + species.notation() + "; available for Li, Na, K, Rb, Cs");
         }
         return potential;
+    }
+
+    // ------------------------------------------------------------------ level lists
+
+    /**
+     * @param species a species (without mass number: any isotope's list; with one: that isotope's
+     *                or the natural element's)
+     * @return the level list of highest precedence that covers it, whose lines
+     *         {@link DataLines#sources} computes by the Ritz combination principle; empty when none
+     * @throws ReferenceDataException when the listed set does not load
+     */
+    public Optional<LevelList> levelList(Species species) {
+        Objects.requireNonNull(species, "species");
+        for (DataRegistry.Listing listing : registry.find(DataKind.LEVELS, species)) {
+            DataSet set = registry.load(listing.info().id());
+            if (set instanceof LevelList) {
+                return Optional.of((LevelList) set);
+            }
+        }
+        return Optional.empty();
+    }
+
+    /**
+     * @return the species of every level list in this context other than one-electron ions' and
+     *         alkali atoms' (those have their own models), ordered by Z and charge; immutable
+     */
+    public List<Species> levelSpecies() {
+        Set<Species> found = new HashSet<>();
+        for (DataRegistry.Listing listing : registry.list()) {
+            if (listing.info().kind() == DataKind.LEVELS) {
+                listing.info().species().stream().filter(s -> !s.isHydrogenLike())
+                        .filter(s -> alkaliSpecies().stream().noneMatch(a -> a.z() == s.z() && s.charge() == 0))
+                        .forEach(found::add);
+            }
+        }
+        return found.stream().sorted(Comparator.comparingInt(Species::z).thenComparingInt(Species::charge)
+                .thenComparingInt(Species::massNumber)).collect(Collectors.toUnmodifiableList());
     }
 
     // ------------------------------------------------------------------ line lists

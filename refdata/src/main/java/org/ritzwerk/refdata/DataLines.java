@@ -3,9 +3,11 @@ package org.ritzwerk.refdata;
 import java.util.List;
 import java.util.Objects;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.LevelList;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.lines.LineSources;
+import org.ritzwerk.engine.ritz.RitzLevels;
 
 /**
  * Line sources for the engine's {@link org.ritzwerk.engine.lines.LineQuery} from a
@@ -20,11 +22,13 @@ public final class DataLines {
 
     /**
      * @param context where the data comes from
-     * @param species one-electron ions ({@code H I}, {@code He II}, ...) and neutral alkali atoms
-     *                ({@code Rb-87 I}) of the context, in the order the sources are to be asked
+     * @param species one-electron ions ({@code H I}, {@code He II}, ...), neutral alkali atoms
+     *                ({@code Rb-87 I}) and species with a level list ({@code He I}) of the context, in
+     *                the order the sources are to be asked
      * @param tier    the level model of the one-electron ions
      * @return the sources: each ion with its context nucleus in that tier, each alkali atom as the
-     *         context assembles it
+     *         context assembles it, each other species' level list ({@link DataContext#levelList})
+     *         giving its lines by the Ritz combination principle under the E1 rules
      * @throws IllegalArgumentException naming a species that is neither
      * @throws ReferenceDataException   when the context has no data for a species' isotope
      */
@@ -37,10 +41,17 @@ public final class DataLines {
                 sources = sources.withHydrogenLike(s, HydrogenLikeModel.of(context.nucleus(s), tier));
             } else if (s.charge() == 0 && context.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z())) {
                 sources = sources.withAlkali(context.alkaliAtom(s));
+            } else if (context.levelList(s).isPresent()) {
+                LevelList list = context.levelList(s).get();
+                Species own = list.info().species().stream().filter(c -> c.z() == s.z() && c.charge() == s.charge())
+                        .findFirst().orElse(s);
+                sources = sources.withLevels(RitzLevels.of(list, own).withSpecies(s));
             } else {
                 throw new IllegalArgumentException(s.notation() + " has no line source in this data context: it"
-                        + " computes one-electron ions (H I, D I, He II, C VI, ...) and the neutral alkali atoms "
-                        + context.alkaliSpecies().stream().map(Species::notation).toList());
+                        + " computes one-electron ions (H I, D I, He II, C VI, ...), the neutral alkali atoms "
+                        + context.alkaliSpecies().stream().map(Species::notation).toList()
+                        + " and the Ritz lines of the species with a level list "
+                        + context.levelSpecies().stream().map(Species::notation).toList());
             }
         }
         return sources;

@@ -65,7 +65,7 @@ public final class DataRegistry {
     public static DataRegistry builtIn() {
         return new DataRegistry(List.of(new Ranked(new NuclearProvider(), Origin.BUILT_IN),
                 new Ranked(new LampProvider(), Origin.BUILT_IN), new Ranked(new HydrogenLikeProvider(), Origin.BUILT_IN),
-                new Ranked(new RydbergProvider(), Origin.BUILT_IN)));
+                new Ranked(new RydbergProvider(), Origin.BUILT_IN), new Ranked(new LevelProvider(), Origin.BUILT_IN)));
     }
 
     /**

@@ -79,7 +79,8 @@ class DataRegistryTest {
     void discoveryFindsTheBuiltInProviders() {
         List<String> providers = DataRegistry.discoverDefault().list().stream().map(DataRegistry.Listing::providerId)
                 .distinct().sorted().collect(Collectors.toList());
-        assertEquals(List.of("ritzwerk-hydrogen-like", "ritzwerk-lamps", "ritzwerk-nuclear", "ritzwerk-rydberg"),
+        assertEquals(List.of("ritzwerk-hydrogen-like", "ritzwerk-lamps", "ritzwerk-levels", "ritzwerk-nuclear",
+                "ritzwerk-rydberg"),
                 providers);
     }
 

@@ -8,11 +8,13 @@ import java.util.Objects;
 import java.util.function.DoubleConsumer;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.StrengthClass;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.ritz.RitzLines;
 import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.quantity.SpectralQuantity;
 
@@ -35,7 +37,8 @@ import org.ritzwerk.quantity.SpectralQuantity;
  * <li>Computed sources (one-electron ions, alkali atoms) are computed in the window (or for the
  *     one transition) with upper n at most {@link #withMaxN maxN} (alkali atoms: both levels, and
  *     l at most {@link #withMaxL maxL}, 3 unless set). A window is needed unless a transition is
- *     given; for line lists and line sets without one, every line is taken.</li>
+ *     given; for line lists and line sets without one, every line is taken. Levels of any species
+ *     give their Ritz lines ({@link RitzLines}) in the window, or all of them without one.</li>
  * <li>Limits ({@code maxN}, {@code maxL}), when set, leave out only lines known to exceed them; a
  *     list line without quantum numbers stays. Unset, they leave out nothing (a transition asked
  *     for by its levels is computed whatever its n).</li>
@@ -299,6 +302,14 @@ public final class LineQuery {
                         : AlkaliLines.window(entry.atom(), window()[0], window()[1], generatedMaxN(),
                                 maxL < 0 ? DEFAULT_ALKALI_MAX_L : maxL, minA, told);
                 lines = LineSet.ofAlkali(entry.atom(), computed);
+            } else if (entry.levels() != null) {
+                RitzLines job = entry.job();
+                if (!Double.isNaN(lowHz)) {
+                    // a hair wider than the query's window, which keep() applies exactly in Hz
+                    job = job.withWindowPerCm(lowHz / PhysicalConstants.C / 100 * (1 - 1e-12),
+                            highHz / PhysicalConstants.C / 100 * (1 + 1e-12));
+                }
+                lines = LineSet.ofRitz(job.compute(entry.levels()));
             } else if (entry.list() != null) {
                 lines = LineSet.of(entry.list());
             } else {

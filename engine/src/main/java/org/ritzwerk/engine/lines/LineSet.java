@@ -21,6 +21,9 @@ import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.ritz.RitzLevels;
+import org.ritzwerk.engine.ritz.RitzLines;
+import org.ritzwerk.engine.ritz.RitzTransitions;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.medium.Medium;
@@ -279,6 +282,54 @@ public final class LineSet {
                     .lineStrength(line.lineStrength())
                     .weights(u.twoJ() + 1, l.twoJ() + 1)
                     .upperEnergy(Math.max(0, atom.energyJoules(u)));
+        }
+        return b.build();
+    }
+
+    /**
+     * The lines that {@link RitzLines} computed from a species' levels: named by their two labels
+     * ({@code 1s2s 3S1 - 1s2p 3P2}, lower first), labelled, with the frequency {@code c sigma} (the
+     * wavelength is {@code c / nu}), the vacuum wavelength's standard uncertainty
+     * {@code u(sigma) / sigma^2} where the levels' uncertainties are known, A and f where given,
+     * weights {@code 2J + 1} where J is known, the upper energy above the ground level, and n l j
+     * where a label reads as a one-electron state ({@code 5p3/2}). Source model {@code ritz}, with
+     * the levels' data set where known.
+     *
+     * @param transitions the Ritz lines
+     * @return the lines, in the order given (rising wavenumber)
+     */
+    public static LineSet ofRitz(RitzTransitions transitions) {
+        Objects.requireNonNull(transitions, "transitions");
+        RitzLevels levels = transitions.levels();
+        Source from = levels.info().map(info -> Source.of("ritz", info)).orElse(Source.of("ritz"));
+        Builder b = new Builder();
+        double hc = PhysicalConstants.H * PhysicalConstants.C * 100;
+        for (int i = 0; i < transitions.size(); i++) {
+            int u = transitions.upper(i);
+            int l = transitions.lower(i);
+            double perCm = transitions.wavenumberPerCm(i);
+            b.addFrequency(levels.species(), from, levels.label(l) + " - " + levels.label(u),
+                    perCm * 100 * PhysicalConstants.C)
+                    .labels(levels.label(u), levels.label(l))
+                    .upperEnergy(levels.energyPerCm(u) * hc);
+            if (transitions.wavenumberUncertaintyPerCm(i).isPresent()) {
+                b.uncertainty(transitions.wavenumberUncertaintyPerCm(i).getAsDouble() / (perCm * perCm) / 100);
+            }
+            transitions.einsteinA(i).ifPresent(b::einsteinA);
+            transitions.oscillatorStrength(i).ifPresent(b::oscillatorStrength);
+            int twoJu = levels.designation(u).twoJ();
+            int twoJl = levels.designation(l).twoJ();
+            if (twoJu >= 0 && twoJl >= 0) {
+                b.weights(twoJu + 1, twoJl + 1);
+            }
+            State upper = parsed(levels.label(u));
+            State lower = parsed(levels.label(l));
+            if (upper != null) {
+                b.upper(upper);
+            }
+            if (lower != null) {
+                b.lower(lower);
+            }
         }
         return b.build();
     }

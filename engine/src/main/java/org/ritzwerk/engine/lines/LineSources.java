@@ -1,25 +1,34 @@
 package org.ritzwerk.engine.lines;
 
 import java.util.ArrayList;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Objects;
+import java.util.Set;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.ritz.RitzLevels;
+import org.ritzwerk.engine.ritz.RitzLines;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 
 /**
  * The sources a {@link LineQuery} asks, given explicitly by the caller from its own data (a
  * refdata {@code DataContext}, a provider jar, or values in code): one-electron ions with their
- * level models, alkali atoms with their quantum-defect models, line lists, and ready-made line
- * sets. Nothing is looked up anywhere else. Sources are asked in the order they were added.
+ * level models, alkali atoms with their quantum-defect models, the levels of any species (lines by
+ * the Ritz combination principle), line lists, and ready-made line sets. Nothing is looked up anywhere else. Sources are asked in the order they were added.
  *
  * <p>Immutable and thread-safe; each {@code with} method returns a new object.
  */
 public final class LineSources {
 
-    /** One source: exactly one of the fields is set. */
-    record Entry(Species species, HydrogenLikeModel model, AlkaliAtom atom, LineList list, LineSet set) {
+    /** One source: exactly one of model, atom, list, set and levels is set (levels with its job). */
+    record Entry(Species species, HydrogenLikeModel model, AlkaliAtom atom, LineList list, LineSet set,
+            RitzLevels levels, RitzLines job) {
+        Entry(Species species, HydrogenLikeModel model, AlkaliAtom atom, LineList list, LineSet set) {
+            this(species, model, atom, list, set, null, null);
+        }
     }
 
     private static final LineSources NONE = new LineSources(List.of());
@@ -73,6 +82,46 @@ public final class LineSources {
      */
     public LineSources withLineSet(LineSet set) {
         return with(new Entry(null, null, null, null, Objects.requireNonNull(set, "set")));
+    }
+
+    /**
+     * @param levels the levels of one species (a level list's rows, or a level optimisation's
+     *               result with its covariance)
+     * @return these sources and the lines of those levels by the Ritz combination principle,
+     *         under the electric-dipole rules of {@link RitzLines#defaults()}
+     */
+    public LineSources withLevels(RitzLevels levels) {
+        return withLevels(levels, RitzLines.defaults());
+    }
+
+    /**
+     * @param levels the levels of one species
+     * @param job    the Ritz job to compute their lines with (its selection rules, A values; a
+     *               query's window is applied on top)
+     * @return these sources and those lines
+     */
+    public LineSources withLevels(RitzLevels levels, RitzLines job) {
+        Objects.requireNonNull(levels, "levels");
+        Objects.requireNonNull(job, "job");
+        return with(new Entry(levels.species(), null, null, null, null, levels, job));
+    }
+
+    /**
+     * @param list a level list (built-in or a user's {@code ritzwerk-levels} file)
+     * @return these sources and the Ritz lines of each species in the list, in the order the species
+     *         first appear, under the rules of {@link RitzLines#defaults()}
+     */
+    public LineSources withLevelList(LevelList list) {
+        Objects.requireNonNull(list, "list");
+        LineSources more = this;
+        Set<Species> seen = new LinkedHashSet<>();
+        for (int i = 0; i < list.size(); i++) {
+            seen.add(list.species(i));
+        }
+        for (Species s : seen) {
+            more = more.withLevels(RitzLevels.of(list, s));
+        }
+        return more;
     }
 
     /** @return the number of sources */

@@ -414,8 +414,34 @@ public final class AlkaliAtom {
     }
 
     private double fitEnergy(QuantumDefects.Series s, int n) {
-        double nStar = n - defect(s.coefficients(), n);
-        return defects.limitPerCm() - defects.rydbergPerCm() / (nStar * nStar);
+        return rydbergRitzEnergy(defects.limitPerCm(), defects.rydbergPerCm(), s.coefficients(), n);
+    }
+
+    /**
+     * The modified Rydberg-Ritz level energy of the class comment,
+     * {@code E = E_limit - R_M / (n - delta(n))^2}.
+     *
+     * @param limitPerCm   the series limit, cm^-1
+     * @param rydbergPerCm the species' mass-corrected Rydberg constant R_M, cm^-1
+     * @param coefficients d0, d2, d4, ... (at least d0)
+     * @param n            principal quantum number, above {@code d0}
+     * @return the level energy on the scale of the limit, cm^-1
+     */
+    public static double rydbergRitzEnergy(double limitPerCm, double rydbergPerCm, List<Double> coefficients, int n) {
+        double nStar = n - rydbergRitzDefect(coefficients, n);
+        return limitPerCm - rydbergPerCm / (nStar * nStar);
+    }
+
+    /**
+     * The quantum defect of the modified Rydberg-Ritz formula of the class comment,
+     * {@code delta(n) = d0 + d2 / (n - d0)^2 + d4 / (n - d0)^4 + ...}.
+     *
+     * @param coefficients d0, d2, d4, ... (at least d0)
+     * @param n            principal quantum number, above {@code d0}
+     * @return delta(n), dimensionless
+     */
+    public static double rydbergRitzDefect(List<Double> coefficients, int n) {
+        return defect(coefficients, n);
     }
 
     private static double defect(List<Double> coefficients, int n) {

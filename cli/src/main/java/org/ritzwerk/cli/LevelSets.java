@@ -1,0 +1,92 @@
+package org.ritzwerk.cli;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.hydrogenic.Notation;
+import org.ritzwerk.engine.lines.LineSources;
+import org.ritzwerk.engine.ritz.LevelDesignation;
+import org.ritzwerk.engine.ritz.RitzLevels;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * Species of --species that have a level list in the data context (He I built in, or a user's
+ * {@code ritzwerk-levels} file given with --data) and are neither one-electron ions nor alkali
+ * atoms: {@code levels} lists their levels and {@code lines} their Ritz lines.
+ */
+final class LevelSets {
+
+    /**
+     * The --species values split in two.
+     *
+     * @param others the entries for the one-electron ions and alkali atoms ({@link Ions#atoms})
+     * @param levels the level lists of the other species, in the order given
+     */
+    record Split(List<String> others, List<RitzLevels> levels) {
+    }
+
+    private LevelSets() {
+    }
+
+    /**
+     * @param data           the data context
+     * @param speciesOptions the --species values, each possibly a comma-separated list
+     * @return the entries split: species with a level list (and no model of their own) apart
+     */
+    static Split split(DataContext data, List<String> speciesOptions) {
+        List<String> others = new ArrayList<>();
+        List<RitzLevels> levels = new ArrayList<>();
+        for (String option : speciesOptions) {
+            for (String text : option.split(",")) {
+                if (text.isBlank()) {
+                    others.add(text);       // Ions refuses it with its message
+                    continue;
+                }
+                Species s = Species.parse(text);
+                boolean modelled = s.isHydrogenLike()
+                        || s.charge() == 0 && data.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z());
+                if (!modelled && data.levelList(s).isPresent()) {
+                    var list = data.levelList(s).get();
+                    Species own = list.info().species().stream().filter(c -> c.z() == s.z() && c.charge() == s.charge())
+                            .findFirst().orElse(s);
+                    levels.add(RitzLevels.of(list, own).withSpecies(s));
+                } else {
+                    others.add(text);
+                }
+            }
+        }
+        return new Split(others, levels);
+    }
+
+    /**
+     * @param levels level lists
+     * @return line sources giving their Ritz lines (E1 rules)
+     */
+    static LineSources sources(List<RitzLevels> levels) {
+        LineSources sources = LineSources.none();
+        for (RitzLevels set : levels) {
+            sources = sources.withLevels(set);
+        }
+        return sources;
+    }
+
+    /**
+     * Adds the levels' rows to a {@code levels} table (species, level, n, l, j, F, g, energy, model, ...).
+     *
+     * @param table   the table
+     * @param levels  the level lists
+     * @param columns the table's number of columns
+     */
+    static void addRows(Table table, List<RitzLevels> levels, int columns) {
+        for (RitzLevels set : levels) {
+            String model = "level list" + set.info().map(i -> " " + i.id()).orElse("");
+            for (int i = 0; i < set.size(); i++) {
+                LevelDesignation d = set.designation(i);
+                Object[] row = {set.species().notation(), set.label(i), null, null,
+                    d.hasJ() ? Notation.half(d.twoJ()) : null, null, d.hasJ() ? d.twoJ() + 1 : null,
+                    set.energyPerCm(i), model, null, null};
+                table.add(java.util.Arrays.copyOf(row, columns));
+            }
+        }
+    }
+}

@@ -1,0 +1,229 @@
+package org.ritzwerk.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.ritzwerk.engine.ritz.RitzException;
+import org.ritzwerk.engine.ritz.RydbergSeries;
+import org.ritzwerk.engine.ritz.SeriesFit;
+import org.ritzwerk.engine.ritz.SeriesFitter;
+import org.ritzwerk.refdata.OutputFiles;
+import org.ritzwerk.refdata.SeriesFiles;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code ritzwerk series}: a Rydberg-Ritz fit of measured series members (limit, quantum defects). */
+@Command(name = "series",
+        mixinStandardHelpOptions = true,
+        header = "Fit measured Rydberg series: the series limit and the quantum defects.",
+        description = "Reads a ritzwerk-series file (members: series name, n, energy above the ground level and "
+                + "its uncertainty) and fits the modified Rydberg-Ritz formula E = E_limit - R_M / (n - delta)^2, "
+                + "delta = d0 + d2/(n-d0)^2 + ..., with the isotope's reduced-mass Rydberg constant R_M; all "
+                + "series in the file share one limit. The number of defect terms of each series is chosen by "
+                + "the Bayesian information criterion (chi^2 + p ln N) unless --terms fixes it. Prints the "
+                + "limit and defects with their uncertainties, the covariance, each member's residual and the "
+                + "models tried; in csv the sections follow one another, each with its header row.",
+        footer = {"", "Examples:",
+            "  ritzwerk series members.csv",
+            "  ritzwerk series members.csv --terms 2 --predict 40,60 --format json",
+            "  ritzwerk series members.csv --plot defects.png"})
+final class SeriesCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Mixin
+    DataOptions data;
+
+    @Parameters(paramLabel = "FILE", description = "The ritzwerk-series file (.csv or .json).")
+    Path file;
+
+    @Option(names = "--terms", paramLabel = "K[,K...]", split = ",",
+            description = "Fix the number of defect terms (1: d0 alone), one per series in file order; default: "
+                    + "chosen by the information criterion.")
+    List<Integer> terms = new ArrayList<>();
+
+    @Option(names = "--max-terms", paramLabel = "K", defaultValue = "3",
+            description = "The most defect terms per series the criterion may choose, 1 to 6 (default: "
+                    + "${DEFAULT-VALUE}).")
+    int maxTerms;
+
+    @Option(names = "--predict", paramLabel = "N[,N...]", split = ",",
+            description = "Also give these members of every series (energy, uncertainty, defect).")
+    List<Integer> predict = new ArrayList<>();
+
+    @Option(names = "--plot", paramLabel = "FILE.png",
+            description = "Write a PNG of the measured quantum defect against n of one series (--plot-series).")
+    Path plot;
+
+    @Option(names = "--plot-series", paramLabel = "NAME",
+            description = "The series --plot draws (default: the first in the file).")
+    String plotSeries;
+
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
+            description = "text (aligned tables), csv or json (one object per line, with a 'kind' field). "
+                    + "Default: ${DEFAULT-VALUE}.")
+    Table.Format format;
+
+    @Override
+    public Integer call() throws IOException {
+        OptionRules rules = new OptionRules(spec);
+        rules.refuseUnless("--max-terms", terms.isEmpty(), "with --terms (it bounds the terms the criterion chooses)");
+        rules.refuseUnless("--plot-series", plot != null, "without --plot");
+        if (maxTerms < 1 || maxTerms > 6) {
+            throw new OptionException("--max-terms must be 1 to 6, got " + maxTerms);
+        }
+        for (int k : terms) {
+            if (k < 1 || k > 6) {
+                throw new OptionException("--terms: each number of terms must be 1 to 6, got " + k);
+            }
+        }
+        for (int n : predict) {
+            if (n < 1 || n > 10000) {
+                throw new OptionException("--predict: n must be 1 to 10000, got " + n);
+            }
+        }
+        if (plot != null && !plot.toString().toLowerCase(java.util.Locale.ROOT).endsWith(".png")) {
+            throw new OptionException("--plot must name a .png file, got " + plot);
+        }
+        SeriesFiles.Contents contents = SeriesFiles.read(file);
+        List<RydbergSeries> series = contents.series();
+        if (!terms.isEmpty() && terms.size() != series.size()) {
+            throw new OptionException("--terms gives " + terms.size() + (terms.size() == 1 ? " count" : " counts")
+                    + " for the " + series.size()
+                    + " series of " + file + " (" + String.join(", ", series.stream().map(RydbergSeries::name).toList())
+                    + ")");
+        }
+        int plotted = 0;
+        if (plotSeries != null) {
+            plotted = series.stream().map(RydbergSeries::name).toList().indexOf(plotSeries.strip());
+            if (plotted < 0) {
+                throw new OptionException("--plot-series: no series '" + plotSeries + "' in " + file + "; it has "
+                        + String.join(", ", series.stream().map(RydbergSeries::name).toList()));
+            }
+        }
+        double rydberg = SeriesFiles.rydbergPerCm(data.context(), contents.species());
+        SeriesFitter fitter = terms.isEmpty() ? SeriesFitter.defaults().withMaxTerms(maxTerms)
+                : SeriesFitter.defaults().withTerms(terms.stream().mapToInt(Integer::intValue).toArray());
+        SeriesFit fit;
+        try {
+            fit = fitter.fit(rydberg, series);
+        } catch (RitzException e) {
+            throw new RitzException(e.code(), file + ": " + e.getMessage());
+        }
+        print(fit, contents);
+        if (plot != null) {
+            try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
+                RydbergSeries one = series.get(plotted);
+                double[] x = new double[one.size()];
+                double[] y = new double[one.size()];
+                Integer[] order = new Integer[one.size()];
+                for (int i = 0; i < order.length; i++) {
+                    order[i] = i;
+                }
+                java.util.Arrays.sort(order, (a, b) -> Integer.compare(one.n(a), one.n(b)));
+                for (int k = 0; k < order.length; k++) {
+                    x[k] = one.n(order[k]);
+                    y[k] = fit.measuredDefect(plotted, order[k]);
+                }
+                Plots.lineChart(batch, plot, contents.species().notation() + " " + one.name()
+                        + ": quantum defect n - n* against n", "n", "quantum defect", x, y, List.of(), false);
+                batch.commit();
+            }
+        }
+        return 0;
+    }
+
+    private void print(SeriesFit fit, SeriesFiles.Contents contents) {
+        PrintWriter out = spec.commandLine().getOut();
+        boolean text = format == Table.Format.text;
+        if (text) {
+            out.printf(java.util.Locale.ROOT, "%s: %d series, %d members, R_M = %.6f cm-1; chi2 = %.4g for %d degrees "
+                    + "of freedom%n%n", contents.species().notation(), fit.series().size(),
+                    fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
+                    fit.degreesOfFreedom());
+        }
+        Table parameters = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("parameter", "parameter"),
+                Table.Column.number("value", "value", "%.11g"), Table.Column.number("uncertainty", "uncertainty", "%.3g"),
+                Table.Column.text("unit", "unit")), out, format);
+        List<String> names = fit.parameterNames();
+        parameters.add("parameter", "limit", fit.limitPerCm(), fit.limitUncertaintyPerCm(), "cm-1");
+        int at = 1;
+        for (int s = 0; s < fit.series().size(); s++) {
+            double[] d = fit.defects(s);
+            double[] u = fit.defectUncertainties(s);
+            for (int k = 0; k < d.length; k++) {
+                parameters.add("parameter", names.get(at++), d[k], u[k], "");
+            }
+        }
+        parameters.finish();
+        section(text, "covariance (limit in cm-1, defects dimensionless)");
+        Table covariance = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("row", "row"),
+                Table.Column.text("column", "column"), Table.Column.number("covariance", "covariance", "%.4e"),
+                Table.Column.number("correlation", "correlation", "%.4f")), out, format);
+        double[][] c = fit.covariance();
+        for (int i = 0; i < c.length; i++) {
+            for (int j = 0; j <= i; j++) {
+                covariance.add("covariance", names.get(i), names.get(j), c[i][j], c[i][j] / Math.sqrt(c[i][i] * c[j][j]));
+            }
+        }
+        covariance.finish();
+        section(text, "members");
+        Table members = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("series", "series"),
+                Table.Column.text("n", "n"), Table.Column.number("energy_per_cm", "energy cm-1", "%.6f"),
+                Table.Column.number("uncertainty_per_cm", "u cm-1", "%.3g"),
+                Table.Column.number("fitted_per_cm", "fitted cm-1", "%.6f"),
+                Table.Column.number("residual_per_cm", "residual cm-1", "%.3g"),
+                Table.Column.number("normalised_residual", "residual/u", "%.2f"),
+                Table.Column.number("quantum_defect", "defect", "%.6f"), Table.Column.text("where", "where")), out, format);
+        for (int s = 0; s < fit.series().size(); s++) {
+            RydbergSeries one = fit.series().get(s);
+            for (int i = 0; i < one.size(); i++) {
+                double r = fit.residualPerCm(s, i);
+                members.add("member", one.name(), one.n(i), one.energyPerCm(i), one.uncertaintyPerCm(i),
+                        one.energyPerCm(i) - r, r, r / one.uncertaintyPerCm(i), fit.measuredDefect(s, i), one.where(i));
+            }
+        }
+        members.finish();
+        if (!predict.isEmpty()) {
+            section(text, "predicted members");
+            Table predicted = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("series", "series"),
+                    Table.Column.text("n", "n"), Table.Column.number("energy_per_cm", "energy cm-1", "%.6f"),
+                    Table.Column.number("uncertainty_per_cm", "u cm-1", "%.3g"),
+                    Table.Column.number("quantum_defect", "defect", "%.6f")), out, format);
+            for (int s = 0; s < fit.series().size(); s++) {
+                for (int n : predict) {
+                    SeriesFit.Member m = fit.predict(s, n);
+                    predicted.add("prediction", fit.series().get(s).name(), n, m.energyPerCm(), m.uncertaintyPerCm(),
+                            m.quantumDefect());
+                }
+            }
+            predicted.finish();
+        }
+        section(text, "models tried (BIC = chi2 + p ln N; the lowest is used)");
+        Table candidates = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("terms", "terms"),
+                Table.Column.number("chi2", "chi2", "%.4g"), Table.Column.number("bic", "BIC", "%.4g")), out, format);
+        for (SeriesFit.Candidate candidate : fit.candidates()) {
+            candidates.add("model", candidate.terms().toString().replace(" ", ""), candidate.chiSquare(), candidate.bic());
+        }
+        candidates.finish();
+        out.flush();
+    }
+
+    private void section(boolean text, String title) {
+        PrintWriter out = spec.commandLine().getOut();
+        if (text) {
+            out.println();
+            out.println(title);
+        } else if (format == Table.Format.csv) {
+            out.println();
+        }
+    }
+}

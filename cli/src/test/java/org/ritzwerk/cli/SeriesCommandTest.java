@@ -1,0 +1,140 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.HashMap;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/** {@code ritzwerk series}: fits, output formats and refusals. */
+class SeriesCommandTest {
+
+    /** Limit of the built-in Rb-87 set the example file's members were computed from, cm^-1 (Mack et al. 2011). */
+    private static final double LIMIT = 33690.80395355937;
+
+    private static Path example(Path dir) throws IOException {
+        Path file = dir.resolve("series-rb-87.csv");
+        try (InputStream in = SeriesCommandTest.class.getResourceAsStream("series-rb-87.csv")) {
+            Files.copy(in, file);
+        }
+        return file;
+    }
+
+    @Test
+    void givesBackTheLimitAndDefectsTheMembersCameFrom(@TempDir Path dir) throws IOException {
+        Path file = example(dir);
+        CliTest.Run run = CliTest.run("series", file.toString(), "--predict", "60", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        JsonMapper json = JsonMapper.builder().build();
+        Map<String, JsonNode> parameters = new HashMap<>();
+        int members = 0;
+        int predictions = 0;
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode row = json.readTree(line);
+            switch (row.get("kind").asString()) {
+                case "parameter" -> parameters.put(row.get("parameter").asString(), row);
+                case "member" -> {
+                    members++;
+                    assertTrue(Math.abs(row.get("normalised_residual").asDouble()) < 1e-3, line);
+                }
+                case "prediction" -> predictions++;
+                default -> { }
+            }
+        }
+        assertEquals(22, members);
+        assertEquals(2, predictions);
+        assertEquals(LIMIT, parameters.get("limit").get("value").asDouble(), 1e-6);
+        // d0, d2 of the built-in set (Mack et al. 2011): nS1/2 3.1311807, 0.1787; nD5/2 1.3464622, -0.594
+        assertEquals(3.1311807, parameters.get("nS1/2 d0").get("value").asDouble(), 1e-8);
+        assertEquals(0.1787, parameters.get("nS1/2 d2").get("value").asDouble(), 1e-5);
+        assertEquals(1.3464622, parameters.get("nD5/2 d0").get("value").asDouble(), 1e-8);
+        assertEquals(-0.594, parameters.get("nD5/2 d2").get("value").asDouble(), 1e-5);
+        assertTrue(parameters.get("limit").get("uncertainty").asDouble() > 0);
+
+        CliTest.Run text = CliTest.run("series", file.toString());
+        assertEquals(0, text.code(), text.err());
+        assertTrue(text.out().startsWith("Rb-87 I: 2 series, 22 members, R_M = 109736.6"), text.out());
+        assertTrue(text.out().contains("models tried") && text.out().contains("[2,2]"), text.out());
+        CliTest.Run csv = CliTest.run("series", file.toString(), "--format", "csv");
+        assertEquals(0, csv.code(), csv.err());
+        assertTrue(csv.out().startsWith("kind,parameter,value,uncertainty,unit"), csv.out());
+    }
+
+    @Test
+    void drawsTheDefectsOfOneSeries(@TempDir Path dir) throws IOException {
+        Path file = example(dir);
+        Path png = dir.resolve("defects.png");
+        CliTest.Run run = CliTest.run("series", file.toString(), "--plot", png.toString(), "--plot-series", "nD5/2");
+        assertEquals(0, run.code(), run.err());
+        byte[] bytes = Files.readAllBytes(png);
+        assertTrue(bytes.length > 1000 && bytes[1] == 'P' && bytes[2] == 'N' && bytes[3] == 'G');
+        CliTest.Run unknown = CliTest.run("series", file.toString(), "--plot", png.toString(), "--plot-series", "nP");
+        assertEquals(2, unknown.code());
+        assertTrue(unknown.err().contains("no series 'nP'") && unknown.err().contains("nS1/2, nD5/2"), unknown.err());
+    }
+
+    @Test
+    void badFilesAreRefusedWithFileLineAndColumn(@TempDir Path dir) throws IOException {
+        Path bad = dir.resolve("bad.csv");
+        Files.writeString(bad, "# ritzwerk-series 1\n# species: Rb-87 I\n# energy-unit: cm-1\n"
+                + "series,n,energy,uncertainty\nS,20.5,33305.1,0.001\nS,21,33305.1,-1\nS,22,abc,0.1\nS,23,33400,0.1\n"
+                + "S,23,33401,0.1\n");
+        CliTest.Run run = CliTest.run("series", bad.toString());
+        assertEquals(2, run.code());
+        assertTrue(run.err().contains("bad.csv:5:2: column n: n must be an integer"), run.err());
+        assertTrue(run.err().contains("bad.csv:6:4: column uncertainty"), run.err());
+        assertTrue(run.err().contains("bad.csv:7:3: column energy: energy is not a number: 'abc'"), run.err());
+        assertTrue(run.err().contains("bad.csv:9:2: column n: n = 23 of series 'S' is already on line 8"), run.err());
+        assertTrue(!run.err().contains("Exception") && !run.err().contains("NaN"), run.err());
+
+        Path noSpecies = dir.resolve("nospecies.csv");
+        Files.writeString(noSpecies, "# ritzwerk-series 1\n# energy-unit: cm-1\nseries,n,energy,uncertainty\nS,20,1,1\n");
+        CliTest.Run missing = CliTest.run("series", noSpecies.toString());
+        assertEquals(2, missing.code());
+        assertTrue(missing.err().contains("required header 'species'"), missing.err());
+
+        Path ion = dir.resolve("ion.csv");
+        Files.writeString(ion, "# ritzwerk-series 1\n# species: Sr II\n# energy-unit: cm-1\nseries,n,energy,uncertainty\n"
+                + "S,20,1,1\n");
+        CliTest.Run charged = CliTest.run("series", ion.toString());
+        assertEquals(2, charged.code());
+        assertTrue(charged.err().contains("ion.csv:2") && charged.err().contains("neutral atoms"), charged.err());
+
+        Path few = dir.resolve("few.csv");
+        Files.writeString(few, "# ritzwerk-series 1\n# species: Rb-87 I\n# energy-unit: cm-1\n"
+                + "series,n,energy,uncertainty\nS,20,33305.1,0.001\nS,21,33350.1,0.001\n");
+        CliTest.Run tooFew = CliTest.run("series", few.toString());
+        assertEquals(2, tooFew.code());
+        assertTrue(tooFew.err().contains("few.csv: a fit with 2 parameters needs at least 3 members"), tooFew.err());
+    }
+
+    @Test
+    void badOptionsAreRefused(@TempDir Path dir) throws IOException {
+        Path file = example(dir);
+        String[][] cases = {
+            {"--terms", "2", "--terms gives 1 count for the 2 series"},
+            {"--terms", "0,2", "--terms: each number of terms must be 1 to 6, got 0"},
+            {"--max-terms", "7", "--max-terms must be 1 to 6, got 7"},
+            {"--predict", "0", "--predict: n must be 1 to 10000, got 0"},
+            {"--plot", dir.resolve("x.jpg").toString(), "--plot must name a .png file"},
+            {"--plot-series", "nS1/2", "--plot-series"}};
+        for (String[] c : cases) {
+            CliTest.Run run = CliTest.run("series", file.toString(), c[0], c[1]);
+            assertEquals(2, run.code(), String.join(" ", c) + ": " + run.err());
+            assertTrue(run.err().contains(c[2]), run.err());
+        }
+        CliTest.Run both = CliTest.run("series", file.toString(), "--terms", "2,2", "--max-terms", "2");
+        assertEquals(2, both.code());
+        CliTest.Run none = CliTest.run("series", dir.resolve("missing.csv").toString());
+        assertEquals(2, none.code());
+        assertTrue(none.err().contains("missing.csv: no such file"), none.err());
+    }
+}

@@ -1,0 +1,188 @@
+package org.ritzwerk.engine.ritz;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+
+/**
+ * The problem of a level optimisation: measured line wavenumbers with their standard
+ * uncertainties and their assignments to an upper and a lower level (by label), and one reference
+ * level whose energy is held fixed (usually the ground level at 0). Built with {@link #builder};
+ * immutable and thread-safe. Levels are numbered in the order they first appear, the reference
+ * first.
+ */
+public final class MeasuredLines {
+
+    private final String reference;
+    private final double referencePerCm;
+    private final List<String> levels;
+    private final int[] upper;
+    private final int[] lower;
+    private final double[] wavenumber;
+    private final double[] sigma;
+    private final String[] name;
+
+    private MeasuredLines(Builder b) {
+        this.reference = b.reference;
+        this.referencePerCm = b.referencePerCm;
+        this.levels = List.copyOf(b.index.keySet());
+        int m = b.upper.size();
+        upper = new int[m];
+        lower = new int[m];
+        wavenumber = new double[m];
+        sigma = new double[m];
+        name = new String[m];
+        for (int k = 0; k < m; k++) {
+            upper[k] = b.upper.get(k);
+            lower[k] = b.lower.get(k);
+            wavenumber[k] = b.values.get(k)[0];
+            sigma[k] = b.values.get(k)[1];
+            name[k] = b.names.get(k);
+        }
+    }
+
+    /**
+     * @param referenceLabel the level held fixed, e.g. the ground level
+     * @param perCm          its energy, cm^-1 (0 for the ground level), finite, not negative
+     * @return a builder
+     */
+    public static Builder builder(String referenceLabel, double perCm) {
+        return new Builder(referenceLabel, perCm);
+    }
+
+    /** @return the reference level's label */
+    public String reference() {
+        return reference;
+    }
+
+    /** @return the reference level's fixed energy, cm^-1 */
+    public double referencePerCm() {
+        return referencePerCm;
+    }
+
+    /** @return the level labels, the reference first, then in order of first appearance */
+    public List<String> levels() {
+        return levels;
+    }
+
+    /** @return the number of lines */
+    public int size() {
+        return wavenumber.length;
+    }
+
+    /**
+     * @param k line index
+     * @return its upper level's index in {@link #levels()}
+     */
+    public int upper(int k) {
+        return upper[k];
+    }
+
+    /**
+     * @param k line index
+     * @return its lower level's index in {@link #levels()}
+     */
+    public int lower(int k) {
+        return lower[k];
+    }
+
+    /**
+     * @param k line index
+     * @return the measured vacuum wavenumber, cm^-1
+     */
+    public double wavenumberPerCm(int k) {
+        return wavenumber[k];
+    }
+
+    /**
+     * @param k line index
+     * @return its standard uncertainty, cm^-1
+     */
+    public double uncertaintyPerCm(int k) {
+        return sigma[k];
+    }
+
+    /**
+     * @param k line index
+     * @return the line's name as given (e.g. where it was read: {@code lines.csv:12})
+     */
+    public String name(int k) {
+        return name[k];
+    }
+
+    /** Collects lines; not thread-safe. */
+    public static final class Builder {
+        private final String reference;
+        private final double referencePerCm;
+        private final Map<String, Integer> index = new LinkedHashMap<>();
+        private final List<Integer> upper = new ArrayList<>();
+        private final List<Integer> lower = new ArrayList<>();
+        private final List<double[]> values = new ArrayList<>();
+        private final List<String> names = new ArrayList<>();
+
+        private Builder(String referenceLabel, double perCm) {
+            if (referenceLabel == null || referenceLabel.isBlank()) {
+                throw new RitzException(RitzException.BAD_ASSIGNMENT, "the reference level's label must not be blank");
+            }
+            if (!(perCm >= 0) || Double.isInfinite(perCm)) {
+                throw new RitzException(RitzException.BAD_VALUE, "the reference level's energy must be finite and not "
+                        + "negative cm-1, got " + perCm);
+            }
+            this.reference = referenceLabel.strip();
+            this.referencePerCm = perCm;
+            index.put(reference, 0);
+        }
+
+        /**
+         * @param upperLabel the upper level's label
+         * @param lowerLabel the lower level's label
+         * @param perCm      the measured vacuum wavenumber, cm^-1, finite and positive
+         * @param sigmaPerCm its standard uncertainty, cm^-1, finite and positive
+         * @return this builder
+         * @throws RitzException naming the line (its number from 1) and what is wrong
+         */
+        public Builder add(String upperLabel, String lowerLabel, double perCm, double sigmaPerCm) {
+            return add(upperLabel, lowerLabel, perCm, sigmaPerCm, "line " + (values.size() + 1));
+        }
+
+        /**
+         * @param upperLabel the upper level's label
+         * @param lowerLabel the lower level's label
+         * @param perCm      the measured vacuum wavenumber, cm^-1, finite and positive
+         * @param sigmaPerCm its standard uncertainty, cm^-1, finite and positive
+         * @param lineName   the line's name in messages and results (e.g. {@code file.csv:12})
+         * @return this builder
+         * @throws RitzException naming the line and what is wrong
+         */
+        public Builder add(String upperLabel, String lowerLabel, double perCm, double sigmaPerCm, String lineName) {
+            Objects.requireNonNull(lineName, "lineName");
+            if (upperLabel == null || upperLabel.isBlank() || lowerLabel == null || lowerLabel.isBlank()) {
+                throw new RitzException(RitzException.BAD_ASSIGNMENT, lineName + ": both level labels are needed");
+            }
+            if (upperLabel.strip().equals(lowerLabel.strip())) {
+                throw new RitzException(RitzException.BAD_ASSIGNMENT, lineName + ": upper and lower level are the "
+                        + "same ('" + upperLabel.strip() + "')");
+            }
+            if (!(perCm > 0) || Double.isInfinite(perCm)) {
+                throw new RitzException(RitzException.BAD_VALUE, lineName + ": wavenumber must be finite and positive "
+                        + "cm-1, got " + perCm);
+            }
+            if (!(sigmaPerCm > 0) || Double.isInfinite(sigmaPerCm)) {
+                throw new RitzException(RitzException.BAD_VALUE, lineName + ": uncertainty must be finite and positive "
+                        + "cm-1, got " + sigmaPerCm);
+            }
+            upper.add(index.computeIfAbsent(upperLabel.strip(), k -> index.size()));
+            lower.add(index.computeIfAbsent(lowerLabel.strip(), k -> index.size()));
+            values.add(new double[] {perCm, sigmaPerCm});
+            names.add(lineName);
+            return this;
+        }
+
+        /** @return the problem */
+        public MeasuredLines build() {
+            return new MeasuredLines(this);
+        }
+    }
+}

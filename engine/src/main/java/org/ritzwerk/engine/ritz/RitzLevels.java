@@ -1,0 +1,295 @@
+package org.ritzwerk.engine.ritz;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.LevelList;
+import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.quantity.Unit;
+
+/**
+ * The energy levels of one species that lines are computed from by the Ritz combination
+ * principle: per level a label, its energy above the ground level (cm^-1), its standard uncertainty
+ * where known, and what the label says about parity, term and J ({@link LevelDesignation}); and,
+ * where given, the covariance of the energies (cm^-2), e.g. from a level optimisation
+ * ({@link LevelOptimum#levels}), so that the uncertainties of line wavenumbers take the
+ * correlations into account.
+ *
+ * <p>Immutable and thread-safe; labels are unique within a set.
+ */
+public final class RitzLevels {
+
+    private final Species species;
+    private final Optional<DataSetInfo> info;
+    private final String[] label;
+    private final double[] energy;
+    private final double[] sigma;
+    private final LevelDesignation[] designation;
+    private final double[][] covariance;
+    private final Map<String, Integer> index;
+
+    private RitzLevels(Species species, Optional<DataSetInfo> info, String[] label, double[] energy, double[] sigma,
+            LevelDesignation[] designation, double[][] covariance) {
+        this.species = species;
+        this.info = info;
+        this.label = label;
+        this.energy = energy;
+        this.sigma = sigma;
+        this.designation = designation;
+        this.covariance = covariance;
+        this.index = new HashMap<>();
+        for (int i = 0; i < label.length; i++) {
+            if (index.putIfAbsent(label[i], i) != null) {
+                throw new IllegalArgumentException("level '" + label[i] + "' of " + species.notation()
+                        + " is given twice");
+            }
+        }
+    }
+
+    /**
+     * @param species the species
+     * @return a builder for its levels
+     */
+    public static Builder builder(Species species) {
+        return new Builder(Objects.requireNonNull(species, "species"));
+    }
+
+    /**
+     * The rows of one species in a level list, energies and uncertainties converted to cm^-1.
+     *
+     * @param list    a level list (any wavenumber or energy unit)
+     * @param species one of its species
+     * @return that species' levels, in the list's order, with the list's info as their data set
+     * @throws IllegalArgumentException when the list has no row of the species, or a label's J
+     *                                  disagrees with its j column (naming the level)
+     */
+    public static RitzLevels of(LevelList list, Species species) {
+        Objects.requireNonNull(list, "list");
+        Objects.requireNonNull(species, "species");
+        double[] factor = {1.0};
+        SpectralArrays.convert(factor, list.unit(), null, Unit.PER_CENTIMETRE, null, factor);
+        Builder b = builder(species).info(list.info());
+        for (int i = 0; i < list.size(); i++) {
+            if (list.species(i).equals(species)) {
+                OptionalDouble u = list.uncertainty(i);
+                b.add(list.label(i), list.energy(i) * factor[0], u.isPresent() ? u.getAsDouble() * factor[0] : Double.NaN,
+                        list.twoJ(i));
+            }
+        }
+        if (b.labels.isEmpty()) {
+            throw new IllegalArgumentException("level list " + list.info().id() + " has no level of "
+                    + species.notation());
+        }
+        return b.build();
+    }
+
+    /**
+     * @param cm2 the covariance of the level energies in cm^-2, n by n in this set's order; symmetric,
+     *            finite, with a non-negative diagonal
+     * @return these levels with that covariance; the standard uncertainties become the square
+     *         roots of its diagonal
+     * @throws RitzException ({@link RitzException#BAD_COVARIANCE}) naming what is wrong
+     */
+    public RitzLevels withCovariance(double[][] cm2) {
+        int n = size();
+        if (cm2.length != n) {
+            throw new RitzException(RitzException.BAD_COVARIANCE, "the covariance has " + cm2.length
+                    + " rows for " + n + " levels");
+        }
+        double[][] copy = new double[n][];
+        for (int i = 0; i < n; i++) {
+            if (cm2[i].length != n) {
+                throw new RitzException(RitzException.BAD_COVARIANCE, "covariance row " + (i + 1) + " has "
+                        + cm2[i].length + " entries for " + n + " levels");
+            }
+            copy[i] = cm2[i].clone();
+        }
+        double[] s = new double[n];
+        for (int i = 0; i < n; i++) {
+            if (!(copy[i][i] >= 0) || Double.isInfinite(copy[i][i])) {
+                throw new RitzException(RitzException.BAD_COVARIANCE, "covariance of level '" + label[i]
+                        + "' with itself must be finite and not negative, got " + copy[i][i]);
+            }
+            s[i] = Math.sqrt(copy[i][i]);
+            for (int j = 0; j < i; j++) {
+                double a = copy[i][j];
+                double b = copy[j][i];
+                if (!Double.isFinite(a) || Math.abs(a - b) > 1e-12 * Math.max(Math.abs(a), Math.abs(b))) {
+                    throw new RitzException(RitzException.BAD_COVARIANCE, "covariance of levels '" + label[i]
+                            + "' and '" + label[j] + "' is not symmetric and finite: " + a + " and " + b);
+                }
+            }
+        }
+        return new RitzLevels(species, info, label, energy, s, designation, copy);
+    }
+
+    /**
+     * @param other the species to give these levels (e.g. an isotope for a natural element's list)
+     * @return the same levels under that species
+     */
+    public RitzLevels withSpecies(Species other) {
+        return new RitzLevels(Objects.requireNonNull(other, "other"), info, label, energy, sigma, designation,
+                covariance);
+    }
+
+    /** @return the species */
+    public Species species() {
+        return species;
+    }
+
+    /** @return the data set the levels come from, where known */
+    public Optional<DataSetInfo> info() {
+        return info;
+    }
+
+    /** @return the number of levels */
+    public int size() {
+        return label.length;
+    }
+
+    /**
+     * @param i level index
+     * @return its label
+     */
+    public String label(int i) {
+        return label[i];
+    }
+
+    /**
+     * @param text a label
+     * @return its index, or -1 when no level has it
+     */
+    public int indexOf(String text) {
+        Integer i = index.get(text);
+        return i == null ? -1 : i;
+    }
+
+    /**
+     * @param i level index
+     * @return its energy above the ground level, cm^-1
+     */
+    public double energyPerCm(int i) {
+        return energy[i];
+    }
+
+    /**
+     * @param i level index
+     * @return the standard uncertainty of its energy, cm^-1, where known
+     */
+    public OptionalDouble uncertaintyPerCm(int i) {
+        return Double.isNaN(sigma[i]) ? OptionalDouble.empty() : OptionalDouble.of(sigma[i]);
+    }
+
+    /**
+     * @param i level index
+     * @return what its label says about parity, term and J
+     */
+    public LevelDesignation designation(int i) {
+        return designation[i];
+    }
+
+    /** @return whether a covariance was given */
+    public boolean hasCovariance() {
+        return covariance != null;
+    }
+
+    /**
+     * @param i a level
+     * @param j another (or the same) level
+     * @return the covariance of their energies, cm^-2: the given covariance, else the variance on
+     *         the diagonal and 0 off it; NaN when an uncertainty is not known (internal use)
+     */
+    double covariance(int i, int j) {
+        if (covariance != null) {
+            return covariance[i][j];
+        }
+        return i == j ? sigma[i] * sigma[i] : (Double.isNaN(sigma[i]) || Double.isNaN(sigma[j]) ? Double.NaN : 0);
+    }
+
+    /**
+     * @param upper a level
+     * @param lower another level
+     * @return the standard uncertainty of {@code E_upper - E_lower}, cm^-1,
+     *         {@code sqrt(V_uu + V_ll - 2 V_ul)}; NaN when an uncertainty is not known
+     */
+    double differenceSigma(int upper, int lower) {
+        double v = covariance(upper, upper) + covariance(lower, lower) - 2 * covariance(upper, lower);
+        return Double.isNaN(v) ? Double.NaN : Math.sqrt(Math.max(0, v));
+    }
+
+    @Override
+    public String toString() {
+        return "RitzLevels[" + species.notation() + ", " + size() + " levels" + (covariance == null ? "" : ", covariance")
+                + "]";
+    }
+
+    /** Collects levels; not thread-safe. */
+    public static final class Builder {
+        private final Species species;
+        private DataSetInfo info;
+        private final List<String> labels = new ArrayList<>();
+        private final List<double[]> values = new ArrayList<>();
+        private final List<LevelDesignation> designations = new ArrayList<>();
+
+        private Builder(Species species) {
+            this.species = species;
+        }
+
+        /**
+         * @param set the data set the levels come from
+         * @return this builder
+         */
+        public Builder info(DataSetInfo set) {
+            this.info = Objects.requireNonNull(set, "set");
+            return this;
+        }
+
+        /**
+         * @param label   the level's label (see {@link LevelDesignation}), not blank, unique
+         * @param perCm   its energy above the ground level, cm^-1, finite, not negative
+         * @param sigmaCm its standard uncertainty, cm^-1, finite and not negative, or NaN when not known
+         * @param twoJ    twice J, or -1 to take J from the label (or leave it unknown)
+         * @return this builder
+         * @throws IllegalArgumentException naming the level and the bad value
+         */
+        public Builder add(String label, double perCm, double sigmaCm, int twoJ) {
+            if (label == null || label.isBlank()) {
+                throw new IllegalArgumentException("level " + (labels.size() + 1) + ": the label must not be blank");
+            }
+            if (!(perCm >= 0) || Double.isInfinite(perCm)) {
+                throw new IllegalArgumentException("level '" + label + "': energy must be finite and not negative "
+                        + "cm-1, got " + perCm);
+            }
+            if (!Double.isNaN(sigmaCm) && (!(sigmaCm >= 0) || Double.isInfinite(sigmaCm))) {
+                throw new IllegalArgumentException("level '" + label + "': uncertainty must be finite and not "
+                        + "negative cm-1, got " + sigmaCm);
+            }
+            designations.add(LevelDesignation.parse(label, twoJ));
+            labels.add(label);
+            values.add(new double[] {perCm, sigmaCm});
+            return this;
+        }
+
+        /**
+         * @return the levels
+         * @throws IllegalArgumentException when a label is given twice
+         */
+        public RitzLevels build() {
+            int n = labels.size();
+            double[] e = new double[n];
+            double[] s = new double[n];
+            for (int i = 0; i < n; i++) {
+                e[i] = values.get(i)[0];
+                s[i] = values.get(i)[1];
+            }
+            return new RitzLevels(species, Optional.ofNullable(info), labels.toArray(new String[0]), e, s,
+                    designations.toArray(new LevelDesignation[0]), null);
+        }
+    }
+}

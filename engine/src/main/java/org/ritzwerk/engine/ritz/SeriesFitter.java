@@ -1,0 +1,355 @@
+package org.ritzwerk.engine.ritz;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Objects;
+import org.apache.commons.math4.legacy.core.Pair;
+import org.apache.commons.math4.legacy.exception.MathIllegalStateException;
+import org.apache.commons.math4.legacy.fitting.leastsquares.LeastSquaresBuilder;
+import org.apache.commons.math4.legacy.fitting.leastsquares.LeastSquaresOptimizer;
+import org.apache.commons.math4.legacy.fitting.leastsquares.LevenbergMarquardtOptimizer;
+import org.apache.commons.math4.legacy.fitting.leastsquares.MultivariateJacobianFunction;
+import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
+import org.apache.commons.math4.legacy.linear.ArrayRealVector;
+import org.apache.commons.math4.legacy.linear.SingularMatrixException;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+
+/**
+ * Rydberg-Ritz fits of measured series: the series limit and the quantum-defect expansion of each
+ * series, from the members' energies, by weighted least squares (Levenberg-Marquardt, Apache
+ * Commons Math). The model is the modified Rydberg-Ritz formula of
+ * {@link AlkaliAtom#rydbergRitzEnergy} (T. F. Gallagher, Rydberg Atoms (1994), eq. 16.19),
+ * {@code E(n) = E_limit - R_M / (n - delta(n))^2},
+ * {@code delta(n) = d0 + d2 / (n - d0)^2 + d4 / (n - d0)^4 + ...}, with the species' reduced-mass
+ * Rydberg constant R_M given by the caller. Several series may share one limit (each with its own
+ * defects).
+ *
+ * <p><b>Number of terms.</b> Unless fixed ({@link #withTerms}), each series starts with d0 alone and
+ * gains terms (up to {@link #withMaxTerms}, 3 unless set: d0, d2, d4) one at a time, each time in the
+ * series where the gain lowers the Bayesian information criterion
+ * {@code BIC = chi^2 + p ln N} the most (G. Schwarz, Ann. Statist. 6, 461 (1978); with Gaussian
+ * errors of known size, -2 ln L is chi^2 up to a constant), until no added term lowers it. Every
+ * model tried is in the result ({@link SeriesFit#candidates()}).
+ *
+ * <p><b>Uncertainties.</b> The covariance is {@code (J^T W J)^-1} at the optimum, from the members'
+ * stated uncertainties (not scaled by chi^2 / dof; the result gives both so the caller can).
+ * Predicted members carry {@code u(E) = sqrt(g^T C g)}, g the gradient of E(n) in the parameters.
+ *
+ * <p>Refused with a {@link RitzException}: fewer members than parameters plus one
+ * ({@link RitzException#TOO_FEW}), a fit that does not converge ({@link RitzException#NO_CONVERGENCE}).
+ * Immutable and thread-safe.
+ */
+public final class SeriesFitter {
+
+    private static final SeriesFitter DEFAULTS = new SeriesFitter(3, null);
+
+    private final int maxTerms;
+    private final int[] fixedTerms;
+
+    private SeriesFitter(int maxTerms, int[] fixedTerms) {
+        this.maxTerms = maxTerms;
+        this.fixedTerms = fixedTerms;
+    }
+
+    /** @return up to 3 terms per series, chosen by the information criterion */
+    public static SeriesFitter defaults() {
+        return DEFAULTS;
+    }
+
+    /**
+     * @param terms the most terms per series (d0 alone is 1), 1 to 6
+     * @return this fitter with that limit
+     */
+    public SeriesFitter withMaxTerms(int terms) {
+        if (terms < 1 || terms > 6) {
+            throw new IllegalArgumentException("the number of defect terms must be 1 to 6, got " + terms);
+        }
+        return new SeriesFitter(terms, null);
+    }
+
+    /**
+     * @param terms the number of terms of each series, in the order the series are given, 1 to 6 each
+     * @return this fitter with those fixed (no selection)
+     */
+    public SeriesFitter withTerms(int... terms) {
+        for (int t : terms) {
+            if (t < 1 || t > 6) {
+                throw new IllegalArgumentException("the number of defect terms must be 1 to 6, got " + t);
+            }
+        }
+        return new SeriesFitter(maxTerms, terms.clone());
+    }
+
+    /**
+     * @param rydbergPerCm the species' reduced-mass Rydberg constant R_M, cm^-1, finite, positive
+     * @param series       one or more series sharing the limit
+     * @return the fit
+     * @throws RitzException when there are too few members or the fit does not converge
+     */
+    public SeriesFit fit(double rydbergPerCm, List<RydbergSeries> series) {
+        Objects.requireNonNull(series, "series");
+        if (!(rydbergPerCm > 0) || Double.isInfinite(rydbergPerCm)) {
+            throw new IllegalArgumentException("R_M must be finite and positive cm-1, got " + rydbergPerCm);
+        }
+        if (series.isEmpty()) {
+            throw new RitzException(RitzException.TOO_FEW, "no series to fit");
+        }
+        if (fixedTerms != null && fixedTerms.length != series.size()) {
+            throw new IllegalArgumentException(fixedTerms.length + " term counts for " + series.size() + " series");
+        }
+        int total = series.stream().mapToInt(RydbergSeries::size).sum();
+        Model model = new Model(rydbergPerCm, series);
+        int[] terms = fixedTerms != null ? fixedTerms.clone() : filled(series.size(), 1);
+        int p = 1 + Arrays.stream(terms).sum();
+        if (total < p + 1) {
+            throw new RitzException(RitzException.TOO_FEW, "a fit with " + p + " parameters needs at least " + (p + 1)
+                    + " members; the series have " + total);
+        }
+        List<SeriesFit.Candidate> tried = new ArrayList<>();
+        double[] start = model.start(terms);
+        Solution best = model.solve(terms, start);
+        if (best == null) {
+            throw new RitzException(RitzException.NO_CONVERGENCE, "the Rydberg-Ritz fit of " + names(series)
+                    + " did not converge (are the n values and energies of one series?)");
+        }
+        tried.add(best.candidate(total));
+        if (fixedTerms == null) {
+            while (true) {
+                Solution next = null;
+                for (int s = 0; s < series.size(); s++) {
+                    if (best.terms[s] >= maxTerms || total < 1 + Arrays.stream(best.terms).sum() + 2) {
+                        continue;
+                    }
+                    int[] more = best.terms.clone();
+                    more[s]++;
+                    Solution trial = model.solve(more, model.extend(best, more));
+                    if (trial == null) {
+                        continue;
+                    }
+                    tried.add(trial.candidate(total));
+                    if (trial.bic(total) < (next == null ? best.bic(total) : next.bic(total))) {
+                        next = trial;
+                    }
+                }
+                if (next == null) {
+                    break;
+                }
+                best = next;
+            }
+        }
+        return new SeriesFit(model, best.terms, best.parameters, best.covariance, best.chiSquare, total, tried);
+    }
+
+    private static int[] filled(int n, int value) {
+        int[] a = new int[n];
+        Arrays.fill(a, value);
+        return a;
+    }
+
+    private static String names(List<RydbergSeries> series) {
+        return series.stream().map(s -> "'" + s.name() + "'").toList().toString();
+    }
+
+    @Override
+    public String toString() {
+        return "SeriesFitter[" + (fixedTerms == null ? "up to " + maxTerms + " terms by BIC"
+                : "terms " + Arrays.toString(fixedTerms)) + "]";
+    }
+
+    /** One converged fit. */
+    private static final class Solution {
+        final int[] terms;
+        final double[] parameters;
+        final double[][] covariance;
+        final double chiSquare;
+
+        Solution(int[] terms, double[] parameters, double[][] covariance, double chiSquare) {
+            this.terms = terms;
+            this.parameters = parameters;
+            this.covariance = covariance;
+            this.chiSquare = chiSquare;
+        }
+
+        double bic(int points) {
+            return chiSquare + parameters.length * Math.log(points);
+        }
+
+        SeriesFit.Candidate candidate(int points) {
+            return new SeriesFit.Candidate(List.of(Arrays.stream(terms).boxed().toArray(Integer[]::new)), chiSquare,
+                    bic(points));
+        }
+    }
+
+    /**
+     * The model over all series: parameters {@code [limit - offset, d0, d2, ... of series 0, d0, ... of
+     * series 1, ...]}, energies measured from {@code offset} (the highest member) for conditioning.
+     */
+    static final class Model {
+        final double rydberg;
+        final List<RydbergSeries> series;
+        final double offset;
+
+        Model(double rydberg, List<RydbergSeries> series) {
+            this.rydberg = rydberg;
+            this.series = List.copyOf(series);
+            double high = 0;
+            for (RydbergSeries s : series) {
+                for (int i = 0; i < s.size(); i++) {
+                    high = Math.max(high, s.energyPerCm(i));
+                }
+            }
+            this.offset = high;
+        }
+
+        /** Energy (from the offset) of member n of a series with these coefficients, and its gradient. */
+        double energy(double limit, List<Double> c, int n, double[] gradient) {
+            double e = AlkaliAtom.rydbergRitzEnergy(limit, rydberg, c, n);
+            if (gradient != null) {
+                double d0 = c.get(0);
+                double x = 1 / ((n - d0) * (n - d0));
+                double nu = n - AlkaliAtom.rydbergRitzDefect(c, n);
+                double dEdDelta = -2 * rydberg / (nu * nu * nu);
+                double dDeltaDd0 = 1;
+                double power = 1;
+                for (int k = 1; k < c.size(); k++) {
+                    dDeltaDd0 += c.get(k) * k * power * 2 / ((n - d0) * (n - d0) * (n - d0));
+                    power *= x;
+                }
+                gradient[0] = dEdDelta * dDeltaDd0;
+                power = x;
+                for (int k = 1; k < c.size(); k++) {
+                    gradient[k] = dEdDelta * power;
+                    power *= x;
+                }
+            }
+            return e;
+        }
+
+        /** A start: per series the best d0 on a grid with its own limit; the limits averaged. */
+        double[] start(int[] terms) {
+            double[] q = new double[1 + Arrays.stream(terms).sum()];
+            double sumW = 0;
+            double sumL = 0;
+            int at = 1;
+            for (int s = 0; s < series.size(); s++) {
+                RydbergSeries one = series.get(s);
+                int lowest = Integer.MAX_VALUE;
+                for (int i = 0; i < one.size(); i++) {
+                    lowest = Math.min(lowest, one.n(i));
+                }
+                double bestChi = Double.POSITIVE_INFINITY;
+                double bestD0 = 0;
+                double bestL = 0;
+                double bestW = 0;
+                for (double d0 = -1; d0 < lowest - 0.05; d0 += 0.001) {
+                    double w = 0;
+                    double wl = 0;
+                    for (int i = 0; i < one.size(); i++) {
+                        double nu = one.n(i) - d0;
+                        double wi = 1 / (one.uncertaintyPerCm(i) * one.uncertaintyPerCm(i));
+                        w += wi;
+                        wl += wi * (one.energyPerCm(i) - offset + rydberg / (nu * nu));
+                    }
+                    double limit = wl / w;
+                    double chi = 0;
+                    for (int i = 0; i < one.size(); i++) {
+                        double nu = one.n(i) - d0;
+                        double r = (one.energyPerCm(i) - offset + rydberg / (nu * nu) - limit) / one.uncertaintyPerCm(i);
+                        chi += r * r;
+                    }
+                    if (chi < bestChi) {
+                        bestChi = chi;
+                        bestD0 = d0;
+                        bestL = limit;
+                        bestW = w;
+                    }
+                }
+                q[at] = bestD0;
+                at += terms[s];
+                sumW += bestW;
+                sumL += bestW * bestL;
+            }
+            q[0] = sumL / sumW;
+            return q;
+        }
+
+        /** The previous solution's parameters with a zero for each new term. */
+        double[] extend(Solution previous, int[] terms) {
+            double[] q = new double[1 + Arrays.stream(terms).sum()];
+            q[0] = previous.parameters[0];
+            int from = 1;
+            int to = 1;
+            for (int s = 0; s < terms.length; s++) {
+                System.arraycopy(previous.parameters, from, q, to, previous.terms[s]);
+                from += previous.terms[s];
+                to += terms[s];
+            }
+            return q;
+        }
+
+        Solution solve(int[] terms, double[] start) {
+            int points = series.stream().mapToInt(RydbergSeries::size).sum();
+            int p = start.length;
+            double[] target = new double[points];
+            int row = 0;
+            for (RydbergSeries s : series) {
+                for (int i = 0; i < s.size(); i++) {
+                    target[row++] = (s.energyPerCm(i) - offset) / s.uncertaintyPerCm(i);
+                }
+            }
+            MultivariateJacobianFunction f = point -> {
+                double[] q = point.toArray();
+                double[] value = new double[points];
+                double[][] jacobian = new double[points][p];
+                evaluate(terms, q, value, jacobian, true);
+                return new Pair<>(new ArrayRealVector(value, false), new Array2DRowRealMatrix(jacobian, false));
+            };
+            try {
+                LeastSquaresOptimizer.Optimum optimum = new LevenbergMarquardtOptimizer()
+                        .optimize(new LeastSquaresBuilder().start(start).model(f).target(target)
+                                .maxEvaluations(10_000).maxIterations(10_000).build());
+                double[] q = optimum.getPoint().toArray();
+                for (double v : q) {
+                    if (!Double.isFinite(v)) {
+                        return null;
+                    }
+                }
+                double[][] covariance = optimum.getCovariances(1e-14).getData();
+                double chi = optimum.getRMS() * optimum.getRMS() * points;
+                return new Solution(terms.clone(), q, covariance, chi);
+            } catch (MathIllegalStateException | SingularMatrixException | ArithmeticException e) {
+                return null;
+            }
+        }
+
+        /** Fills values (from the offset) and the Jacobian; weighted by 1 / u when asked. */
+        void evaluate(int[] terms, double[] q, double[] value, double[][] jacobian, boolean weighted) {
+            int row = 0;
+            int at = 1;
+            for (int s = 0; s < series.size(); s++) {
+                RydbergSeries one = series.get(s);
+                List<Double> c = coefficients(q, at, terms[s]);
+                double[] g = new double[terms[s]];
+                for (int i = 0; i < one.size(); i++) {
+                    double w = weighted ? 1 / one.uncertaintyPerCm(i) : 1;
+                    value[row] = energy(q[0], c, one.n(i), g) * w;
+                    jacobian[row][0] = w;
+                    for (int k = 0; k < terms[s]; k++) {
+                        jacobian[row][at + k] = g[k] * w;
+                    }
+                    row++;
+                }
+                at += terms[s];
+            }
+        }
+
+        static List<Double> coefficients(double[] q, int at, int count) {
+            Double[] c = new Double[count];
+            for (int k = 0; k < count; k++) {
+                c[k] = q[at + k];
+            }
+            return List.of(c);
+        }
+    }
+}
