@@ -150,7 +150,8 @@ class ReadmeExamplesTest {
             "./ritzwerk identify peaks.csv --species \"H I,He II\" --search-velocity 100",
             "./ritzwerk identify peaks.csv --species \"H I\" --n-max 9 --plasma --resolving-power 5000",
             "./ritzwerk calibrate sample.csv --apply calibration.json --out sample-nm.csv",
-            "./ritzwerk lines --species \"H I\" --from \"121 nm\" --to \"122 nm\" --data my-isotopes.csv");
+            "./ritzwerk lines --species \"H I\" --from \"121 nm\" --to \"122 nm\" --data my-isotopes.csv",
+            "./ritzwerk series rb87-series.csv --predict 60");
 
     /**
      * Writes the input files a README command reads but no earlier README command writes.
@@ -196,6 +197,10 @@ class ReadmeExamplesTest {
                     "--pixels", "4096", "--medium", "air", "--temperature", "300", "--resolving-power", "2000",
                     "--read-noise", "5", "--seed", "22", "--out", dir.resolve("sample.csv").toString());
             assertEquals(0, synth.code(), synth.err());
+        } else if (command.contains("rb87-series.csv")) {
+            // The series file the cli tests ship (members computed from the built-in Rb-87 defects).
+            Files.copy(Path.of("src", "test", "resources", "org", "ritzwerk", "cli", "series-rb-87.csv"),
+                    dir.resolve("rb87-series.csv"));
         } else {
             // The isotope table the repository ships, in the format --data reads. (`data show
             // nuclear-isotopes --format csv` writes only the columns, no header keys, which
