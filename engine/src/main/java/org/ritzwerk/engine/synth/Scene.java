@@ -686,6 +686,7 @@ public final class Scene {
                 addIon(ion, out, doppler, Math.max(lo - reach, lo / 2), hi + reach, stark, notes);
             }
             for (ListEmitter list : resolvedLists()) {
+                out.reserve(list.vacuumNm.length);
                 for (int i = 0; i < list.vacuumNm.length; i++) {
                     double vacuumShifted = list.vacuumNm[i] * doppler;
                     if (vacuumShifted < lo - reach || vacuumShifted > (hi + reach) * 1.001) {
@@ -1060,16 +1061,25 @@ public final class Scene {
             add(at, rate, gauss, lorentzFwhm, textSource, texts.size() - 1);
         }
 
+        /** Makes room for n more lines at once (a list's), so a big list is not copied while it grows. */
+        void reserve(int n) {
+            if (position.length - size < n) {
+                grow(size + n);
+            }
+        }
+
+        private void grow(int capacity) {
+            position = Arrays.copyOf(position, capacity);
+            photons = Arrays.copyOf(photons, capacity);
+            gaussian = Arrays.copyOf(gaussian, capacity);
+            lorentz = Arrays.copyOf(lorentz, capacity);
+            labelSource = Arrays.copyOf(labelSource, capacity);
+            labelIndex = Arrays.copyOf(labelIndex, capacity);
+        }
+
         void add(double at, double rate, double gauss, double lorentzFwhm, LabelSource source, int index) {
             if (size == position.length) {
-                // Half as much again: a list of millions of lines needs less spare room than doubling leaves.
-                int capacity = size + (size >> 1);
-                position = Arrays.copyOf(position, capacity);
-                photons = Arrays.copyOf(photons, capacity);
-                gaussian = Arrays.copyOf(gaussian, capacity);
-                lorentz = Arrays.copyOf(lorentz, capacity);
-                labelSource = Arrays.copyOf(labelSource, capacity);
-                labelIndex = Arrays.copyOf(labelIndex, capacity);
+                grow(2 * size);
             }
             position[size] = at;
             photons[size] = rate;
@@ -1081,6 +1091,9 @@ public final class Scene {
         }
 
         Lines lines() {
+            if (size == position.length) {
+                return new Lines(position, photons, gaussian, lorentz, labelSource, labelIndex);
+            }
             return new Lines(Arrays.copyOf(position, size), Arrays.copyOf(photons, size), Arrays.copyOf(gaussian, size),
                     Arrays.copyOf(lorentz, size), Arrays.copyOf(labelSource, size), Arrays.copyOf(labelIndex, size));
         }
