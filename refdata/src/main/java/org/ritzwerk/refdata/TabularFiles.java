@@ -558,12 +558,17 @@ final class TabularFiles {
         List<String> head = new ArrayList<>();
         try (java.io.BufferedReader in = strictReader(file)) {
             String line;
+            boolean end = true;
             while ((line = in.readLine()) != null) {
                 head.add(head.isEmpty() ? withoutByteOrderMark(line) : line);
                 String stripped = line.strip();
                 if (!stripped.isEmpty() && !stripped.startsWith("#") && !stripped.startsWith("\uFEFF#")) {
+                    end = false;
                     break;
                 }
+            }
+            if (end && endsWithLineBreak(file)) {
+                head.add(""); // as the whole-file reader counts lines: a final line break starts an empty line
             }
         } catch (java.nio.charset.CharacterCodingException e) {
             throw notUtf8(file);
@@ -638,6 +643,18 @@ final class TabularFiles {
         }
         return new DataFileException(DataFileException.INVALID, name, List.of(new DataProblem(name, line, column,
                 "data.not-utf8", "the file is not valid UTF-8 text", "")), "");
+    }
+
+    private static boolean endsWithLineBreak(Path file) throws IOException {
+        try (java.nio.channels.SeekableByteChannel channel = Files.newByteChannel(file)) {
+            long size = channel.size();
+            if (size == 0) {
+                return false;
+            }
+            ByteBuffer last = ByteBuffer.allocate(1);
+            channel.position(size - 1).read(last);
+            return last.get(0) == '\n' || last.get(0) == '\r';
+        }
     }
 
     /** A reader of the file's UTF-8 text that fails on a malformed byte instead of replacing it. */

@@ -101,6 +101,65 @@ class LineColumnsFilesTest {
                 problems(() -> LineListFiles.readColumns(file, DataKind.LINES)));
     }
 
+    /**
+     * Damaged copies of a good file (cut short, a span deleted, garbage characters inserted, a
+     * field emptied, a line doubled; seeded) read alike both ways: the same lines, or the same
+     * problems (line and code).
+     */
+    @Test
+    void damagedFilesReadAlikeBothWays() throws IOException {
+        String good = Files.readString(generated("good.csv", 40, 14L));
+        org.quicktheories.QuickTheory.qt().withFixedSeed(15L).withExamples(300)
+                .forAll(org.quicktheories.generators.SourceDSL.integers().between(0, 4),
+                        org.quicktheories.generators.SourceDSL.longs().all())
+                .checkAssert((kind, seed) -> {
+                    java.util.Random random = new java.util.Random(seed);
+                    int at = random.nextInt(good.length());
+                    String text = switch (kind) {
+                        case 0 -> good.substring(0, at);
+                        case 1 -> good.substring(0, at) + good.substring(Math.min(good.length(), at + 1
+                                + random.nextInt(30)));
+                        case 2 -> good.substring(0, at) + (char) (random.nextInt(0x250) + 1)
+                                + (char) (random.nextInt(0x7e) + 1) + good.substring(at);
+                        case 3 -> good.replaceFirst("," + (random.nextInt(9) + 1), ",,");
+                        default -> {
+                            int start = good.lastIndexOf('\n', at) + 1;
+                            int end = good.indexOf('\n', at);
+                            yield end < 0 ? good : good.substring(0, end + 1) + good.substring(start);
+                        }
+                    };
+                    Path file = folder.resolve("damaged.csv");
+                    try {
+                        Files.writeString(file, text, StandardCharsets.UTF_8);
+                    } catch (IOException e) {
+                        throw new UncheckedIOException(e);
+                    }
+                    assertEquals(outcome(() -> columnsOf(LineListFiles.read(file, DataKind.LINES))),
+                            outcome(() -> columnsOf(LineListFiles.readColumns(file, DataKind.LINES))), text);
+                });
+    }
+
+    private static String columnsOf(LineList list) {
+        return columnsOf(LineListFiles.columnsOf(list));
+    }
+
+    private static String columnsOf(LineColumns columns) {
+        StringBuilder out = new StringBuilder(columns.unit() + " " + columns.medium() + "\n");
+        for (int i = 0; i < columns.size(); i++) {
+            out.append(columns.species(i)).append(' ').append(columns.position(i)).append(' ')
+                    .append(columns.intensity(i)).append('\n');
+        }
+        return out.toString();
+    }
+
+    private static String outcome(java.util.function.Supplier<String> read) {
+        try {
+            return read.get();
+        } catch (DataFileException e) {
+            return e.problems().stream().map(p -> p.line() + " " + p.code()).collect(Collectors.joining("; "));
+        }
+    }
+
     @Test
     void badHeadersAndBytesAreReportedWithTheirLine() throws IOException {
         Path noMedium = folder.resolve("no-medium.csv");
@@ -108,6 +167,12 @@ class LineColumnsFilesTest {
                 + "# version: 1\n# position-unit: nm\nspecies,position,intensity\nNe I,500,1\n");
         assertEquals(problems(() -> LineListFiles.read(noMedium, DataKind.LINES)),
                 problems(() -> LineListFiles.readColumns(noMedium, DataKind.LINES)));
+        // Regression (damagedFilesReadAlikeBothWays, seed 15): a file cut short after its header, ending
+        // in a line break, reports the missing column row on the same line both ways.
+        Path headerOnly = folder.resolve("header-only.csv");
+        Files.writeString(headerOnly, "# ritzwerk-lines 1\n# id: x\n");
+        assertEquals(problems(() -> LineListFiles.read(headerOnly, DataKind.LINES)),
+                problems(() -> LineListFiles.readColumns(headerOnly, DataKind.LINES)));
         Path bytes = folder.resolve("bytes.csv");
         byte[] good = ("# ritzwerk-lines 1\n# id: x\n# title: t\n# source: s\n# provenance: measured\n# version: 1\n"
                 + "# position-unit: cm-1\nspecies,position,intensity\nNe I,500,1\nNe I,5").getBytes(StandardCharsets.UTF_8);
