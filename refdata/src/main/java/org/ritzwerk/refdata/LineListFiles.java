@@ -14,6 +14,7 @@ import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.StrengthClass;
+import org.ritzwerk.engine.synth.LineColumns;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
@@ -190,6 +191,195 @@ public final class LineListFiles {
         DataSetInfo info = list.info();
         return list.withInfo(new DataSetInfo(info.id(), info.kind(), info.title(), info.version(), info.provenance(),
                 list.coveredSpecies()));
+    }
+
+    /** The most lines {@link #readColumns} reads (the columns are Java arrays). */
+    public static final int MAX_COLUMN_ROWS = 100_000_000;
+
+    /**
+     * Reads a line list into primitive columns for rendering ({@link LineColumns},
+     * {@link org.ritzwerk.engine.synth.Scene.Builder#lineColumns}): species, position and
+     * intensity, 18 bytes a line and no object a line, for lists of millions of lines. A CSV file is
+     * read as it streams from the disk, with no limit of {@link #MAX_BYTES} or {@link #MAX_ROWS}
+     * (up to {@link #MAX_COLUMN_ROWS} rows); a JSON file is read as {@link #read(Path, DataKind)}
+     * reads it. The file is checked as {@link #read(Path, DataKind)} checks it, every row and
+     * header value the same way, and a file either reads both ways or is refused both ways;
+     * problems of a streamed file carry no excerpt of their line (file, line and column as
+     * always). Duplicates (same species, position and levels) are found after reading, by sorting
+     * the positions; the levels are compared by a 64-bit hash of their text, so two lines with the
+     * same species and position but different levels could be taken for duplicates only if their
+     * hashes collide (about one chance in 2^64 for each such pair).
+     *
+     * @param file        a {@code .csv} or {@code .json} file
+     * @param defaultKind the kind when the file names none ({@link DataKind#LINES} or
+     *                    {@link DataKind#LAMP_LINES})
+     * @return the lines, in file order
+     * @throws DataFileException with every problem found
+     */
+    public static LineColumns readColumns(Path file, DataKind defaultKind) {
+        String name = file.toString();
+        String lower = name.toLowerCase(java.util.Locale.ROOT);
+        if (lower.endsWith(".json") || !lower.endsWith(".csv") && startsLikeJson(file)) {
+            return columnsOf(read(file, defaultKind));
+        }
+        ColumnSink sink = new ColumnSink();
+        TabularFiles.Parsed p = TabularFiles.parseCsvStreaming(SPEC, file, sink, MAX_COLUMN_ROWS);
+        sink.start(p, defaultKind);
+        LineColumns columns = sink.builder.build();
+        sink.refuseDuplicates(p, columns);
+        p.throwIfAny();
+        return columns;
+    }
+
+    private static boolean startsLikeJson(Path file) {
+        TabularFiles.refuseFolder(file);
+        try (java.io.Reader in = java.nio.file.Files.newBufferedReader(file, java.nio.charset.StandardCharsets.UTF_8)) {
+            int c;
+            do {
+                c = in.read();
+            } while (c >= 0 && (Character.isWhitespace(c) || c == '\uFEFF'));
+            return c == '{';
+        } catch (java.io.IOException e) {
+            return false; // the CSV reader reports it
+        }
+    }
+
+    /**
+     * @param list a line list
+     * @return its species, positions and intensities as columns
+     */
+    public static LineColumns columnsOf(LineList list) {
+        LineColumns.Builder builder = LineColumns.builder(list.info().id(), list.unit(), list.medium());
+        for (int i = 0; i < list.size(); i++) {
+            builder.add(list.species(i), list.position(i), list.intensity(i).orElse(Double.NaN));
+        }
+        return builder.build();
+    }
+
+    /** Turns each row into columns as it is read, checking it as {@link #build} does. */
+    private static final class ColumnSink implements TabularFiles.RowSink {
+        private LineColumns.Builder builder;
+        private boolean started;
+        private final Map<String, Species> speciesCache = new HashMap<>();
+        /** The file line of each line kept, for the duplicate check. */
+        private int[] fileLine = new int[1024];
+        /** A hash of each kept line's levels (lower and upper); null while no line names one. */
+        private long[] levels;
+
+        void start(TabularFiles.Parsed p, DataKind defaultKind) {
+            if (started) {
+                return;
+            }
+            started = true;
+            p.checkHeader();
+            p.provenance();
+            String kindText = p.header.get("kind");
+            if (kindText != null && !kindText.equals("lines") && !kindText.equals("lamp-lines")) {
+                p.headerProblem("kind", "data.header", "kind must be lines or lamp-lines, got '" + kindText + "'");
+            }
+            Unit unit = p.unit(POSITION_KINDS);
+            Medium medium = p.medium(unit);
+            Unit rowUnit = unit == null ? Unit.NANOMETRE : unit;
+            String id = p.header.getOrDefault("id", "");
+            builder = LineColumns.builder(id, rowUnit, rowUnit.kind() == Kind.WAVELENGTH
+                    ? (medium == null ? Medium.vacuum() : medium) : null);
+        }
+
+        @Override
+        public void accept(TabularFiles.Parsed p, TabularFiles.Row row) {
+            start(p, DataKind.LINES);
+            int rowBefore = p.problems.size();
+            Species species = p.species(row, speciesCache);
+            double position = p.number(row, "position", true);
+            p.number(row, "uncertainty", false);
+            double intensity = p.number(row, "intensity", false);
+            p.number(row, "einstein_a", false);
+            String strengthText = p.text(row, "strength");
+            if (strengthText != null) {
+                try {
+                    StrengthClass.fromId(strengthText);
+                } catch (IllegalArgumentException e) {
+                    p.rowProblem(row, "strength", "data.unknown-strength", e.getMessage());
+                }
+            }
+            String lower = p.text(row, "lower");
+            String upper = p.text(row, "upper");
+            p.text(row, "note");
+            if (p.problems.size() != rowBefore) {
+                return;
+            }
+            if (position == 0) {
+                p.rowProblem(row, "position", "data.not-positive", "position must be positive, got 0");
+                return;
+            }
+            int k = builder.size();
+            if (k == fileLine.length) {
+                fileLine = java.util.Arrays.copyOf(fileLine, k + (k >> 1));
+                if (levels != null) {
+                    levels = java.util.Arrays.copyOf(levels, fileLine.length);
+                }
+            }
+            if ((lower != null || upper != null) && levels == null) {
+                levels = new long[fileLine.length];
+            }
+            if (levels != null) {
+                levels[k] = levelsHash(lower, upper);
+            }
+            fileLine[k] = row.line();
+            builder.add(species, position, intensity);
+        }
+
+        /** 64-bit FNV-1a over the two texts, with a separator that neither can hold as given. */
+        private static long levelsHash(String lower, String upper) {
+            long h = 0xcbf29ce484222325L;
+            for (String text : new String[] {lower, upper}) {
+                if (text == null) {
+                    h = (h ^ 0x1FFFF) * 0x100000001b3L;
+                } else {
+                    for (int i = 0; i < text.length(); i++) {
+                        h = (h ^ text.charAt(i)) * 0x100000001b3L;
+                    }
+                }
+                h = (h ^ 0x2FFFF) * 0x100000001b3L;
+            }
+            return h;
+        }
+
+        /**
+         * Reports each line that repeats an earlier one (species, position and levels), as
+         * {@link #build} does: positions sorted to find the equal ones, then only those compared.
+         */
+        void refuseDuplicates(TabularFiles.Parsed p, LineColumns columns) {
+            int n = columns.size();
+            long[] sorted = new long[n];
+            for (int i = 0; i < n; i++) {
+                sorted[i] = Double.doubleToLongBits(columns.position(i)); // positive: bits sort as values
+            }
+            java.util.Arrays.sort(sorted);
+            java.util.Set<Long> repeated = new java.util.HashSet<>();
+            for (int i = 1; i < n; i++) {
+                if (sorted[i] == sorted[i - 1]) {
+                    repeated.add(sorted[i]);
+                }
+            }
+            if (repeated.isEmpty()) {
+                return;
+            }
+            Map<String, Integer> seen = new HashMap<>();
+            for (int i = 0; i < n; i++) {
+                long bits = Double.doubleToLongBits(columns.position(i));
+                if (!repeated.contains(bits)) {
+                    continue;
+                }
+                String key = columns.species(i).notation() + "|" + bits + "|" + (levels == null ? 0 : levels[i]);
+                Integer first = seen.putIfAbsent(key, fileLine[i]);
+                if (first != null) {
+                    p.problem(fileLine[i], p.columnIndex.getOrDefault("position", 0), "data.duplicate",
+                            "column position: duplicate of the line on line " + first
+                                    + " (same species, position and levels)", "");
+                }
+            }
+        }
     }
 
     /**

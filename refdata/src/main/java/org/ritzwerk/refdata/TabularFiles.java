@@ -137,6 +137,8 @@ final class TabularFiles {
         Map<String, Integer> columnIndex = Map.of();
         private final RowSink sink;
         private int rowCount;
+        /** The most rows read. */
+        int maxRows = MAX_ROWS;
 
         Parsed(Spec spec, String source, String text, RowSink sink) {
             this.spec = spec;
@@ -530,11 +532,160 @@ final class TabularFiles {
      */
     static Parsed parseCsv(Spec spec, String text, String source, RowSink sink) {
         Parsed p = new Parsed(spec, source, text, sink);
+        int lineNumber = readHeader(p, p::raw, p.lineCount());
+        try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(text)) {
+            readRows(p, iterator, lineNumber);
+        } catch (JacksonException e) {
+            csvSyntax(p, e);
+        }
+        return p;
+    }
+
+    /**
+     * Reads a CSV file as it streams from the disk, for files beyond {@link #MAX_BYTES} and
+     * {@link #MAX_ROWS} (a line list of millions of lines): the header as
+     * {@link #parseCsv(Spec, String, String, RowSink)} reads it, then each row handed to the sink
+     * and dropped. No text of the whole file is held, so problems show no excerpt of their line
+     * (file, line and column are given as always). At most {@code maxRows} rows.
+     *
+     * @param maxRows the most rows read; beyond, a {@link DataFileException#TOO_LARGE} problem
+     */
+    static Parsed parseCsvStreaming(Spec spec, Path file, RowSink sink, int maxRows) {
+        String name = file.toString();
+        refuseFolder(file);
+        Parsed p = new Parsed(spec, name, "", sink);
+        p.maxRows = maxRows;
+        List<String> head = new ArrayList<>();
+        try (java.io.BufferedReader in = strictReader(file)) {
+            String line;
+            boolean end = true;
+            while ((line = in.readLine()) != null) {
+                head.add(head.isEmpty() ? withoutByteOrderMark(line) : line);
+                String stripped = line.strip();
+                if (!stripped.isEmpty() && !stripped.startsWith("#") && !stripped.startsWith("\uFEFF#")) {
+                    end = false;
+                    break;
+                }
+            }
+            if (end && endsWithLineBreak(file)) {
+                head.add(""); // as the whole-file reader counts lines: a final line break starts an empty line
+            }
+        } catch (java.nio.charset.CharacterCodingException e) {
+            throw notUtf8(file);
+        } catch (IOException e) {
+            throw DataFileException.unreadable(name, e);
+        }
+        int lineNumber = readHeader(p, l -> l >= 1 && l <= head.size() ? head.get(l - 1) : "", head.size());
+        try (java.io.Reader in = strictReader(file)) {
+            in.mark(1);
+            if (in.read() != '\uFEFF') {
+                in.reset();
+            }
+            try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(in)) {
+                readRows(p, iterator, lineNumber);
+            }
+        } catch (JacksonException e) {
+            if (e.getCause() instanceof java.nio.charset.CharacterCodingException) {
+                throw notUtf8(file);
+            }
+            csvSyntax(p, e);
+        } catch (java.nio.charset.CharacterCodingException e) {
+            throw notUtf8(file);
+        } catch (IOException e) {
+            throw DataFileException.unreadable(name, e);
+        }
+        return p;
+    }
+
+    /**
+     * The file's first byte that is not UTF-8, found by decoding it again in chunks, as the
+     * problem {@link #decodeStrict} reports for a file read whole (line and column).
+     */
+    private static DataFileException notUtf8(Path file) {
+        String name = file.toString();
+        java.nio.charset.CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
+                .onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT);
+        ByteBuffer bytes = ByteBuffer.allocate(1 << 16);
+        java.nio.CharBuffer chars = java.nio.CharBuffer.allocate(1 << 16);
+        int line = 1;
+        int column = 1;
+        try (InputStream in = Files.newInputStream(file)) {
+            while (true) {
+                int read = in.read(bytes.array(), bytes.position(), bytes.remaining());
+                if (read > 0) {
+                    bytes.position(bytes.position() + read);
+                }
+                bytes.flip();
+                java.nio.charset.CoderResult result = decoder.decode(bytes, chars, read < 0);
+                chars.flip();
+                while (chars.hasRemaining()) {
+                    if (chars.get() == '\n') {
+                        line++;
+                        column = 1;
+                    } else {
+                        column++;
+                    }
+                }
+                chars.clear();
+                if (result.isError()) {
+                    int bad = bytes.get(bytes.position()) & 0xff;
+                    return new DataFileException(DataFileException.INVALID, name, List.of(new DataProblem(name, line,
+                            column, "data.not-utf8", String.format(Locale.ROOT,
+                                    "byte 0x%02X is not valid UTF-8 text here", bad), "")), "");
+                }
+                bytes.compact();
+                if (read < 0) {
+                    break;
+                }
+            }
+        } catch (IOException e) {
+            return DataFileException.unreadable(name, e);
+        }
+        return new DataFileException(DataFileException.INVALID, name, List.of(new DataProblem(name, line, column,
+                "data.not-utf8", "the file is not valid UTF-8 text", "")), "");
+    }
+
+    private static boolean endsWithLineBreak(Path file) throws IOException {
+        try (java.nio.channels.SeekableByteChannel channel = Files.newByteChannel(file)) {
+            long size = channel.size();
+            if (size == 0) {
+                return false;
+            }
+            ByteBuffer last = ByteBuffer.allocate(1);
+            channel.position(size - 1).read(last);
+            return last.get(0) == '\n' || last.get(0) == '\r';
+        }
+    }
+
+    /** A reader of the file's UTF-8 text that fails on a malformed byte instead of replacing it. */
+    private static java.io.BufferedReader strictReader(Path file) throws IOException {
+        java.nio.charset.CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
+                .onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT);
+        return new java.io.BufferedReader(new java.io.InputStreamReader(Files.newInputStream(file), decoder), 1 << 16);
+    }
+
+    private static void csvSyntax(Parsed p, JacksonException e) {
+        TokenStreamLocation where = e.getLocation();
+        int line = where == null ? 1 : Math.max(where.getLineNr(), 1);
+        p.problem(line, where == null ? 0 : Math.max(where.getColumnNr(), 0), "data.csv-syntax",
+                "CSV syntax: " + e.getOriginalMessage(), "");
+    }
+
+    /**
+     * Reads the header lines ({@code # key: value}, the first {@code # format version}) up to the
+     * first line that is neither blank nor a comment.
+     *
+     * @param lineAt the text of line l (1-based), without its line break
+     * @param lines  the number of lines lineAt knows
+     * @return the number of lines looked at
+     */
+    private static int readHeader(Parsed p, java.util.function.IntFunction<String> lineAt, int lines) {
+        Spec spec = p.spec;
         String formatLine = spec.format() + " " + spec.version();
         int lineNumber = 0;
         boolean sawFormat = false;
-        for (int l = 1; l <= p.lineCount(); l++) {
-            String line = p.raw(l);
+        for (int l = 1; l <= lines; l++) {
+            String line = lineAt.apply(l);
             lineNumber++;
             String stripped = line.strip();
             if (stripped.isEmpty()) {
@@ -574,45 +725,42 @@ final class TabularFiles {
         if (!sawFormat) {
             p.problem(1, 1, "data.format", "the file must start with '# " + formatLine + "'", "");
         }
-        try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(text)) {
-            String[] columns = null;
-            while (iterator.hasNextValue()) {
-                int line = iterator.currentLocation().getLineNr();
-                String[] fields = iterator.nextValue();
-                if (fields.length == 1 && fields[0].isBlank()) {
-                    continue;
-                }
-                if (columns == null) {
-                    columns = fields.clone();
-                    for (int c = 0; c < columns.length; c++) {
-                        columns[c] = columns[c].strip();
-                    }
-                    columns(p, fields, line);
-                    continue;
-                }
-                if (fields.length != columns.length) {
-                    p.problem(line, 0, "data.field-count", "row has " + fields.length + " fields, the header has "
-                            + columns.length, "");
-                    continue;
-                }
-                Map<String, Object> values = new HashMap<>();
-                for (int c = 0; c < columns.length; c++) {
-                    values.put(columns[c], fields[c].isEmpty() ? null : fields[c]);
-                }
-                if (!addRow(p, new Row(line, p.raw(line), values))) {
-                    break;
-                }
+        return lineNumber;
+    }
+
+    /** The rows after the header: the row of column names, then the data rows to {@link #addRow}. */
+    private static void readRows(Parsed p, MappingIterator<String[]> iterator, int lineNumber) {
+        String[] columns = null;
+        while (iterator.hasNextValue()) {
+            int line = iterator.currentLocation().getLineNr();
+            String[] fields = iterator.nextValue();
+            if (fields.length == 1 && fields[0].isBlank()) {
+                continue;
             }
             if (columns == null) {
-                p.problem(lineNumber, 0, "data.no-columns", "no row of column names after the header", "");
+                columns = fields.clone();
+                for (int c = 0; c < columns.length; c++) {
+                    columns[c] = columns[c].strip();
+                }
+                columns(p, fields, line);
+                continue;
             }
-        } catch (JacksonException e) {
-            TokenStreamLocation where = e.getLocation();
-            int line = where == null ? 1 : Math.max(where.getLineNr(), 1);
-            p.problem(line, where == null ? 0 : Math.max(where.getColumnNr(), 0), "data.csv-syntax",
-                    "CSV syntax: " + e.getOriginalMessage(), "");
+            if (fields.length != columns.length) {
+                p.problem(line, 0, "data.field-count", "row has " + fields.length + " fields, the header has "
+                        + columns.length, "");
+                continue;
+            }
+            Map<String, Object> values = new HashMap<>();
+            for (int c = 0; c < columns.length; c++) {
+                values.put(columns[c], fields[c].isEmpty() ? null : fields[c]);
+            }
+            if (!addRow(p, new Row(line, p.raw(line), values))) {
+                break;
+            }
         }
-        return p;
+        if (columns == null) {
+            p.problem(lineNumber, 0, "data.no-columns", "no row of column names after the header", "");
+        }
     }
 
     private static void columns(Parsed p, String[] names, int line) {
@@ -636,8 +784,8 @@ final class TabularFiles {
 
     /** @return false when the row limit is passed and reading should stop */
     private static boolean addRow(Parsed p, Row row) {
-        if (p.rowCount >= MAX_ROWS) {
-            p.problem(row.line(), 0, DataFileException.TOO_LARGE, "more than " + MAX_ROWS + " rows; split the file",
+        if (p.rowCount >= p.maxRows) {
+            p.problem(row.line(), 0, DataFileException.TOO_LARGE, "more than " + p.maxRows + " rows; split the file",
                     row.raw());
             return false;
         }

@@ -106,4 +106,33 @@ class SynthesisGuideTest {
         assertEquals(Medium.air(), truth.medium());
         assertTrue(truth.labels().contains("H I Balmer alpha"), truth.labels().toString());
     }
+    @Test
+    void aBigLineListReadAsColumnsAndRenderedThroughTheFourierDomain(@TempDir Path folder) throws IOException {
+        Path file = folder.resolve("big-list.csv");
+        StringBuilder text = new StringBuilder("# ritzwerk-lines 1\n# id: big-list\n# title: t\n# source: s\n"
+                + "# provenance: computed\n# version: 1\n# position-unit: nm\n# medium: air\n"
+                + "species,position,intensity\n");
+        java.util.SplittableRandom random = new java.util.SplittableRandom(5L);
+        for (int i = 0; i < 50_000; i++) {
+            text.append(i % 2 == 0 ? "Fe I," : "Fe II,").append(600 + 100 * random.nextDouble()).append(',')
+                    .append(random.nextDouble(0, 100)).append('\n');
+        }
+        java.nio.file.Files.writeString(file, text);
+        DataContext data = DataContext.builtIn();
+
+        // --- README: a line list of millions of lines, streamed from its file into columns and rendered ---
+        org.ritzwerk.engine.synth.LineColumns lines = LineListFiles.readColumns(file,   // 18 bytes a line
+                org.ritzwerk.data.DataKind.LINES);
+        SyntheticSpectrum spectrum = Scene.builder(PixelGrid.linear(600, 700, 200_000))
+                .lineColumns(lines, data::nucleus)                                // as lineList(LineList, ...)
+                .temperature(5000).medium(Medium.air()).instrument(Instrument.ofResolvingPower(50_000))
+                .renderer(org.ritzwerk.engine.synth.Renderer.FAST)
+                .build().render(1);
+        // --- end ---
+
+        assertEquals(50_000, lines.size());
+        assertEquals(50_000, spectrum.lines().size());
+        assertEquals(200_000, spectrum.counts().length);
+        assertTrue(spectrum.lines().label(0).startsWith("Fe I 6"), spectrum.lines().label(0));
+    }
 }

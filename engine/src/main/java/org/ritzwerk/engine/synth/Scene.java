@@ -12,6 +12,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
@@ -24,6 +25,7 @@ import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.RydbergException;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
+import org.ritzwerk.quantity.Unit;
 
 /**
  * A described scene (emitters, plasma conditions, instrument, pixel grid) that renders into a
@@ -207,14 +209,18 @@ public final class Scene {
         private final double[] photons;
         private final double[] gaussian;
         private final double[] lorentz;
-        private final String[] label;
+        /** Where each line's label comes from: a source and the line's index in it. */
+        private final LabelSource[] labelSource;
+        private final int[] labelIndex;
 
-        Lines(double[] position, double[] photons, double[] gaussian, double[] lorentz, String[] label) {
+        Lines(double[] position, double[] photons, double[] gaussian, double[] lorentz, LabelSource[] labelSource,
+                int[] labelIndex) {
             this.position = position;
             this.photons = photons;
             this.gaussian = gaussian;
             this.lorentz = lorentz;
-            this.label = label;
+            this.labelSource = labelSource;
+            this.labelIndex = labelIndex;
         }
 
         /**
@@ -241,7 +247,15 @@ public final class Scene {
                     throw new IllegalArgumentException("line " + i + " has no label");
                 }
             }
-            return new Lines(position.clone(), photons.clone(), gaussian.clone(), lorentz.clone(), label.clone());
+            String[] copy = label.clone();
+            LabelSource[] source = new LabelSource[n];
+            int[] index = new int[n];
+            LabelSource texts = i -> copy[i];
+            for (int i = 0; i < n; i++) {
+                source[i] = texts;
+                index[i] = i;
+            }
+            return new Lines(position.clone(), photons.clone(), gaussian.clone(), lorentz.clone(), source, index);
         }
 
         /** @return number of lines */
@@ -286,7 +300,7 @@ public final class Scene {
          * @return e.g. {@code H I H-alpha} or the line list's label
          */
         public String label(int i) {
-            return label[i];
+            return labelSource[i].label(labelIndex[i]);
         }
     }
 
@@ -294,7 +308,7 @@ public final class Scene {
     public static final class Builder {
         private final PixelGrid grid;
         private final List<HydrogenLikeEmitter> ions = new ArrayList<>();
-        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter or RelativeSet
+        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter, RelativeSet or RelativeColumns
         private double temperature = 10_000;
         private double electronDensity = Double.NaN;
         private double velocity;
@@ -381,7 +395,8 @@ public final class Scene {
                 }
             }
             positive(label + " emitter mass", emitterMassKg);
-            lists.add(new ListEmitter(label, vacuumNm.clone(), photons.clone(), emitterMassKg, lineLabels.clone()));
+            String[] labels = lineLabels.clone();
+            lists.add(new ListEmitter(label, vacuumNm.clone(), photons.clone(), emitterMassKg, i -> labels[i]));
             return this;
         }
 
@@ -459,6 +474,34 @@ public final class Scene {
                 }
             }
             return false;
+        }
+
+        /**
+         * A line list held as primitive columns (millions of lines read from a file, say), treated
+         * exactly as {@link #lineList(LineList, Function)} treats a {@link LineList} with the same
+         * rows: one emitter per species, lines without an intensity left out, intensities scaled to
+         * the strongest ion line when the scene has one-electron ions, the same photon rates,
+         * widths and labels ({@code Ne I 640.2248 nm air}). No object is made per line: the labels
+         * are made when asked for. The columns are kept, not copied (they are immutable).
+         *
+         * @param columns the lines
+         * @param nuclei  the nucleus of each species, for its mass in the Doppler width
+         * @return this builder
+         * @throws IllegalArgumentException when no line has an intensity
+         */
+        public Builder lineColumns(LineColumns columns, Function<Species, Nucleus> nuclei) {
+            Objects.requireNonNull(columns, "columns");
+            Objects.requireNonNull(nuclei, "nuclei");
+            boolean any = false;
+            for (int i = 0; i < columns.size() && !any; i++) {
+                any = columns.intensity(i) > 0;
+            }
+            if (!any) {
+                throw new IllegalArgumentException("line list " + columns.id() + " gives no line an intensity; a scene"
+                        + " needs them");
+            }
+            lists.add(new RelativeColumns(columns, nuclei));
+            return this;
         }
 
         /**
@@ -643,6 +686,7 @@ public final class Scene {
                 addIon(ion, out, doppler, Math.max(lo - reach, lo / 2), hi + reach, stark, notes);
             }
             for (ListEmitter list : resolvedLists()) {
+                out.reserve(list.vacuumNm.length);
                 for (int i = 0; i < list.vacuumNm.length; i++) {
                     double vacuumShifted = list.vacuumNm[i] * doppler;
                     if (vacuumShifted < lo - reach || vacuumShifted > (hi + reach) * 1.001) {
@@ -654,7 +698,7 @@ public final class Scene {
                     }
                     double nu = PhysicalConstants.C / (list.vacuumNm[i] * 1e-9);
                     double gauss = axis * Broadening.dopplerFwhm(nu, temperature, list.massKg) / nu;
-                    out.add(axis, list.photons[i], gauss, collisional, list.labels[i]);
+                    out.add(axis, list.photons[i], gauss, collisional, list.labels, i);
                 }
             }
             if (out.outsideMedium > 0) {
@@ -673,6 +717,11 @@ public final class Scene {
                     out.add(fixed);
                 } else if (entry instanceof AlkaliEmitter alkali) {
                     out.add(alkaliLines(alkali));
+                } else if (entry instanceof RelativeColumns columns) {
+                    if (Double.isNaN(ionScale)) {
+                        ionScale = strongestIonLine();
+                    }
+                    out.addAll(relativeColumnLines(columns, ionScale));
                 } else {
                     if (Double.isNaN(ionScale)) {
                         ionScale = strongestIonLine();
@@ -716,7 +765,7 @@ public final class Scene {
                         * Math.exp(-atom.energyPerCm(line.upper()) * hcPerCm / kT) / partition;
                 labels[i] = atom.species().notation() + " " + line.label();
             }
-            return new ListEmitter(atom.species().notation(), nm, photons, e.massKg(), labels);
+            return new ListEmitter(atom.species().notation(), nm, photons, e.massKg(), i -> labels[i]);
         }
 
         /** The strongest one-electron line's photon rate at abundance 1, or 0 without ions. */
@@ -734,6 +783,63 @@ public final class Scene {
                 strongest = Math.max(strongest, ionLines.photons(i));
             }
             return strongest;
+        }
+
+        /**
+         * As {@link #relativeSetLines} for the same list as a {@link LineSet}, for columns: the
+         * same vacuum wavelengths (converted through metres, as {@link LineSet#of(LineList)}
+         * does), photon rates and labels, in the same order; each species' lines are kept as
+         * indices into the columns and their labels made on demand.
+         */
+        private List<ListEmitter> relativeColumnLines(RelativeColumns r, double ionScale) {
+            LineColumns columns = r.columns();
+            int size = columns.size();
+            double[] vacuum = new double[size];
+            try {
+                SpectralArrays.convert(columns.positions(), columns.unit(), columns.medium(), Unit.METRE,
+                        Medium.vacuum(), vacuum);
+            } catch (IllegalArgumentException e) {
+                throw new IllegalArgumentException("line list " + columns.id() + ": " + e.getMessage(), e);
+            }
+            double strongest = 0;
+            for (int i = 0; i < size; i++) {
+                double intensity = columns.intensity(i);
+                if (intensity > strongest) {
+                    strongest = intensity;
+                }
+            }
+            double scale = ionScale > 0 ? ionScale / strongest : 1;
+            String suffix = " " + columns.unit().symbol() + (columns.medium() == null ? "" : " "
+                    + columns.medium().label());
+            int[] count = new int[columns.coveredSpecies().size()];
+            for (int i = 0; i < size; i++) {
+                if (!Double.isNaN(columns.intensity(i))) {
+                    count[columns.speciesNumber(i)]++;
+                }
+            }
+            List<ListEmitter> out = new ArrayList<>();
+            for (int number = 0; number < count.length; number++) {
+                Species species = columns.coveredSpecies().get(number);
+                int n = count[number];
+                double[] nm = new double[n];
+                double[] photons = new double[n];
+                int[] row = new int[n];
+                int k = 0;
+                for (int i = 0; i < size && k < n; i++) {
+                    if (columns.speciesNumber(i) == number && !Double.isNaN(columns.intensity(i))) {
+                        nm[k] = vacuum[i] * 1e9;
+                        photons[k] = columns.intensity(i) * scale;
+                        row[k] = i;
+                        k++;
+                    }
+                }
+                String prefix = species.notation() + " ";
+                Nucleus nucleus = Objects.requireNonNull(r.nuclei().apply(species), "nucleus of " + species.notation());
+                double mass = nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
+                out.add(new ListEmitter(species.notation(), nm, photons, mass,
+                        i -> prefix + columns.position(row[i]) + suffix));
+            }
+            return out;
         }
 
         /** A line set with relative intensities: one emitter per species, lines with an intensity, scaled. */
@@ -763,8 +869,9 @@ public final class Scene {
                 }
                 Nucleus nucleus = Objects.requireNonNull(r.nuclei().apply(species), "nucleus of " + species.notation());
                 double mass = nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
+                String[] kept = Arrays.copyOf(labels, n);
                 out.add(new ListEmitter(species.notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n), mass,
-                        Arrays.copyOf(labels, n)));
+                        i -> kept[i]));
             }
             return out;
         }
@@ -871,7 +978,13 @@ public final class Scene {
     private record HydrogenLikeEmitter(Species species, HydrogenLikeModel model, double abundance) {
     }
 
-    private record ListEmitter(String label, double[] vacuumNm, double[] photons, double massKg, String[] labels) {
+    /** Line i's label; lets a list of millions of lines make its labels on demand. */
+    @FunctionalInterface
+    interface LabelSource {
+        String label(int i);
+    }
+
+    private record ListEmitter(String label, double[] vacuumNm, double[] photons, double massKg, LabelSource labels) {
     }
 
     private record AlkaliEmitter(AlkaliAtom atom, double abundance, double massKg) {
@@ -879,6 +992,9 @@ public final class Scene {
 
 
     private record RelativeSet(LineSet set, Function<Species, Nucleus> nuclei) {
+    }
+
+    private record RelativeColumns(LineColumns columns, Function<Species, Nucleus> nuclei) {
     }
 
     /** Growable columns of lines. */
@@ -891,7 +1007,11 @@ public final class Scene {
         private double[] photons = new double[64];
         private double[] gaussian = new double[64];
         private double[] lorentz = new double[64];
-        private String[] label = new String[64];
+        private LabelSource[] labelSource = new LabelSource[64];
+        private int[] labelIndex = new int[64];
+        /** The labels given as text, one by one (the ions' lines). */
+        private final List<String> texts = new ArrayList<>();
+        private final LabelSource textSource = texts::get;
 
         Collected(double lo, double hi) {
             this.lo = lo;
@@ -899,24 +1019,45 @@ public final class Scene {
         }
 
         void add(double at, double rate, double gauss, double lorentzFwhm, String text) {
+            texts.add(text);
+            add(at, rate, gauss, lorentzFwhm, textSource, texts.size() - 1);
+        }
+
+        /** Makes room for n more lines at once (a list's), so a big list is not copied while it grows. */
+        void reserve(int n) {
+            if (position.length - size < n) {
+                grow(size + n);
+            }
+        }
+
+        private void grow(int capacity) {
+            position = Arrays.copyOf(position, capacity);
+            photons = Arrays.copyOf(photons, capacity);
+            gaussian = Arrays.copyOf(gaussian, capacity);
+            lorentz = Arrays.copyOf(lorentz, capacity);
+            labelSource = Arrays.copyOf(labelSource, capacity);
+            labelIndex = Arrays.copyOf(labelIndex, capacity);
+        }
+
+        void add(double at, double rate, double gauss, double lorentzFwhm, LabelSource source, int index) {
             if (size == position.length) {
-                position = Arrays.copyOf(position, 2 * size);
-                photons = Arrays.copyOf(photons, 2 * size);
-                gaussian = Arrays.copyOf(gaussian, 2 * size);
-                lorentz = Arrays.copyOf(lorentz, 2 * size);
-                label = Arrays.copyOf(label, 2 * size);
+                grow(2 * size);
             }
             position[size] = at;
             photons[size] = rate;
             gaussian[size] = gauss;
             lorentz[size] = lorentzFwhm;
-            label[size] = text;
+            labelSource[size] = source;
+            labelIndex[size] = index;
             size++;
         }
 
         Lines lines() {
+            if (size == position.length) {
+                return new Lines(position, photons, gaussian, lorentz, labelSource, labelIndex);
+            }
             return new Lines(Arrays.copyOf(position, size), Arrays.copyOf(photons, size), Arrays.copyOf(gaussian, size),
-                    Arrays.copyOf(lorentz, size), Arrays.copyOf(label, size));
+                    Arrays.copyOf(lorentz, size), Arrays.copyOf(labelSource, size), Arrays.copyOf(labelIndex, size));
         }
     }
 }
