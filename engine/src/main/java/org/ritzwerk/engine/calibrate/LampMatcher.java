@@ -86,7 +86,14 @@ import org.ritzwerk.medium.Medium;
  *
  * <p><b>Refinement.</b> The winner is grown again over every peak, weak ones included, in the same
  * way (where the strong peaks left gaps), then re-matched against every peak and every line and
- * refitted until the pairs stop changing (at most 10 passes).
+ * refitted until the pairs stop changing (at most 10 passes). Last, every pair must be confirmed
+ * by the others (leave one out): the polynomial fitted to the other pairs, with the curvature prior,
+ * must put its line within the tolerance of its peak. A pair the others do not confirm, most often a
+ * lone foreign line or ghost beyond the other pairs that a lamp line a few pixels away was given to
+ * and the polynomial bent to take, is dropped (the worst first, refitting after each); the figures
+ * and the acceptance tests then judge the pairs that remain. (The error of each observation's
+ * prediction from the others as its check: cross-validation, M. Stone, J. R. Stat. Soc. B 36, 111
+ * (1974); common practice.)
  *
  * <p><b>Failures</b> ({@link CalibrationException}): fewer than 3 peaks
  * ({@link CalibrationException#TOO_FEW_PEAKS}) or lines within the prior
@@ -1111,6 +1118,52 @@ public final class LampMatcher {
             return true;
         }
 
+        /**
+         * Leave-one-out check of the pairs: each pair's line must lie within the tolerance of where
+         * the polynomial fitted to the other pairs (with the curvature prior) puts it. A pair the
+         * others do not confirm (typically a lone line beyond the rest that the polynomial bends to
+         * take) is dropped, the worst first, and the polynomial refitted, until every pair left is
+         * confirmed. The figures and the match are then taken without the dropped pairs.
+         *
+         * @param matched per peak, its window line or -1; dropped pairs are set to -1
+         * @return the polynomial fitted to the pairs kept (a unchanged when nothing was dropped)
+         */
+        private double[] dropUnconfirmed(double[] a, int[] matched, int sign) {
+            for (int pass = 0; pass < centre.length; pass++) {
+                if (!fitOn(centre, matched, a[1])) {
+                    return a;
+                }
+                int worst = -1;
+                double worstMiss = tolerance;
+                for (int k = 0; k < centre.length; k++) {
+                    if (matched[k] < 0) {
+                        continue;
+                    }
+                    double x = (centre[k] - mid) / half;
+                    double nm = windowNm[matched[k]];
+                    polynomial.remove(x, nm);
+                    if (polynomial.solveNow()) {
+                        double slope = polynomial.derivative(x) / half;
+                        double miss = Math.abs(polynomial.value(x) - nm) / Math.abs(slope);
+                        if (slope * sign > 0 && miss > worstMiss) {
+                            worstMiss = miss;
+                            worst = k;
+                        }
+                    }
+                    polynomial.add(x, nm);
+                }
+                if (worst < 0) {
+                    return a;
+                }
+                matched[worst] = -1;
+                if (!fitOn(centre, matched, a[1])) {
+                    return a;
+                }
+                a = polynomial.coefficients();
+            }
+            return a;
+        }
+
         /** Re-matches the winner against every peak and line until the pairs settle. */
         Refined refine(Candidate best, double[] centreSigma) {
             double[] a = best.coefficients;
@@ -1145,6 +1198,7 @@ public final class LampMatcher {
                 a = polynomial.coefficients();
             }
             assign(a, centre, matched);
+            a = dropUnconfirmed(a, matched, best.sign);
             Candidate measured = measure(a, best.sign, best.score);
             int[] order = sortBy(indicesOf(matched), k -> centre[k]);
             int size = order.length;

@@ -259,6 +259,51 @@ class CalibrationLampMatcherTest {
     }
 
     @Test
+    void aLoneEndPeakTheOtherPairsDoNotConfirmIsNotPaired() {
+        // The curved neon scene of the test above with the peaks beyond pixel CUT gone but one: a
+        // foreign line (in no list) OFFSET pixels from where the first neon line beyond CUT + 400
+        // falls, that neon line itself missing. So far beyond the other pairs the prediction is
+        // loose, and growth gave the line to the foreign peak and bent the polynomial to take it
+        // (this test failed so before the leave-one-out check); the pairs before CUT put the line
+        // OFFSET pixels from the peak, so it must stay unpaired.
+        double[] truth = {480, 0.10, 0.06 / (2 * 4095)};
+        java.util.List<Double> pixels = new java.util.ArrayList<>();
+        java.util.List<Integer> lineOf = new java.util.ArrayList<>();
+        double lone = Double.NaN;
+        int loneLine = -1;
+        for (int l = 0; l < LampScene.NEON_NM.length; l++) {
+            double w = LampScene.NEON_NM[l];
+            double p = (-truth[1] + Math.sqrt(truth[1] * truth[1] + 4 * truth[2] * (w - truth[0]))) / (2 * truth[2]);
+            if (p > 5 && p < CUT) {
+                pixels.add(p);
+                lineOf.add(l);
+            } else if (p >= CUT + 400 && p < 4090 && loneLine < 0) {
+                lone = p + OFFSET;
+                loneLine = l;
+            }
+        }
+        pixels.add(lone);
+        lineOf.add(-1);
+        int n = pixels.size();
+        double[] centre = new double[n];
+        double[] intensity = new double[n];
+        for (int k = 0; k < n; k++) {
+            centre[k] = pixels.get(k);
+            intensity[k] = lineOf.get(k) < 0 ? 1000 : LampScene.NEON_INTENSITY[lineOf.get(k)];
+        }
+        double[] sigma = new double[n];
+        java.util.Arrays.fill(sigma, 0.05);
+        LampMatch match = LampMatcher.defaults().match(centre, sigma, intensity, 4096, NEON);
+        for (int i = 0; i < match.size(); i++) {
+            assertEquals((int) lineOf.get(match.peakIndex(i)), match.lineIndex(i), "pair " + i + " at pixel "
+                    + match.pixel(i));
+        }
+    }
+
+    private static final double CUT = 2400;
+    private static final double OFFSET = 5;
+
+    @Test
     void wrongDispersionPriorNamesTheSolutionOutsideIt() {
         Scene scene = new Scene(5, 8, false);
         LampMatcher wrong = LampMatcher.defaults().withPrior(new LampMatcher.Prior(300, 1000, 0.3, 0.6));
