@@ -554,6 +554,21 @@ public final class AlkaliAtom {
         return dipoleBohr(wavefunction(a), wavefunction(b));
     }
 
+    /**
+     * The radial dipole integral of two wavefunctions already at hand, so that a caller holding
+     * many of them (a Stark-map basis, a pair basis) need not go through the bounded cache.
+     *
+     * @param a the first function, from {@link #wavefunction(State)} of this atom
+     * @param b the second function, from {@link #wavefunction(State)} of this atom
+     * @return {@code <a|r|b>} in a0, with the dipole operator of the atom (as
+     *         {@link #radialDipoleBohr(State, State)})
+     */
+    public double radialDipoleBohr(RadialWavefunction a, RadialWavefunction b) {
+        Objects.requireNonNull(a, "a");
+        Objects.requireNonNull(b, "b");
+        return dipoleBohr(a, b);
+    }
+
     /** The radial dipole integral of two wavefunctions in a0, with the dipole operator of the atom. */
     private double dipoleBohr(RadialWavefunction a, RadialWavefunction b) {
         double scale = lengthScale();
