@@ -602,6 +602,21 @@ public final class AlkaliAtom {
         }
     }
 
+    /**
+     * The angular factor of the reduced dipole element, so that
+     * {@code reducedDipole(a, b) = reducedDipoleAngular(a, b) * radialDipoleBohr(a, b)}.
+     *
+     * @param a first state
+     * @param b second state, with l differing by one
+     * @return {@code (-1)^(l+s+j'+1) sqrt((2j+1)(2j'+1)) {l j s; j' l' 1} (-1)^l sqrt((2l+1)(2l'+1)) (l 1 l'; 0 0 0)}
+     *         (class comment), dimensionless; 0 when the j's do not couple
+     * @throws RydbergException when l and l' do not differ by one
+     */
+    public static double reducedDipoleAngular(State a, State b) {
+        checkDipole(a, b);
+        return reducedAngular(a, b);
+    }
+
     /** The angular part of {@code <l j||d||l' j'>} in the class comment's convention. */
     static double reducedAngular(State a, State b) {
         int l = a.l();
