@@ -59,6 +59,40 @@ class PairInteractionsTest {
         assertTrue(d.strongestDefectHz() < 0, "the nP + (n-1)P pair lies below 2 nS for Rb");
     }
 
+    /**
+     * Rb nD5/2 pairs (m = 5/2 each) pass a Foerster resonance with (n+2)P3/2 + (n-2)F7/2 between
+     * n = 43 and 44: the 43D5/2 pair lies within a few MHz of 45P3/2 + 41F7/2 (A. Reinhard, T.
+     * Cubel Liebisch, B. Knuffman and G. Raithel, Phys. Rev. A 75, 032712 (2007); from memory; our
+     * defect, from the quantum defects of the test atom, is -8.8 MHz), so that channel dominates
+     * and C6 changes sign across the resonance.
+     */
+    @Test
+    void signChangesAcrossTheFoersterResonanceOfRbNd() {
+        State d43 = State.of(43, 2, 5);
+        State d44 = State.of(44, 2, 5);
+        DispersionCoefficient below = PAIRS.c6(new PairState(d43, 5, d43, 5));
+        DispersionCoefficient above = PAIRS.c6(new PairState(d44, 5, d44, 5));
+        assertEquals(State.of(45, 1, 3), below.strongest().first());
+        assertEquals(State.of(41, 3, 7), below.strongest().second());
+        assertEquals(0, below.strongestDefectHz(), 20e6, "within 20 MHz of resonance");
+        assertTrue(below.strongestDefectHz() < 0 && above.strongestDefectHz() > 0, "the defect crosses zero");
+        assertTrue(below.c6Au() > 0 && above.c6Au() < 0, "C6 changes sign: " + below.c6GHzUm6() + " and "
+                + above.c6GHzUm6() + " GHz um^6");
+        // far from the resonance the dominant channel is much further off, and C6 much smaller
+        DispersionCoefficient far = PAIRS.c6(new PairState(State.of(36, 2, 5), 5, State.of(36, 2, 5), 5));
+        assertTrue(Math.abs(far.strongestDefectHz()) > 1e9);
+    }
+
+    /** nP + nP and nD + nD pairs are computed alike and converge with the range. */
+    @Test
+    void pAndDPairsConverge() {
+        for (State s : new State[] {State.of(60, 1, 3), State.of(60, 2, 5)}) {
+            PairState pair = new PairState(s, s.twoJ(), s, s.twoJ());
+            double wide = PAIRS.withNeighbourRange(10).c6(pair).c6Au();
+            assertEquals(wide, PAIRS.c6(pair).c6Au(), 1e-3 * Math.abs(wide), s.label());
+        }
+    }
+
     /** At theta = 0 the weights are -2 for q1 = q2 = 0 and -1 for q1 = -q2 = +-1; 1 - 3 cos^2 for (0,0). */
     @Test
     void angularWeights() {
