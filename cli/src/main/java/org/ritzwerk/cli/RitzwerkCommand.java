@@ -16,7 +16,7 @@ import picocli.CommandLine.Command;
         footer = {"", "Safety: lamps, discharge tubes, plasma sources and lasers can hurt. Read the",
             "Safety section of README.md and follow your local rules before using them."},
         subcommands = {ConvertCommand.class, LevelsCommand.class, LinesCommand.class, IdentifyCommand.class,
-            DataCommand.class, SynthCommand.class, CalibrateCommand.class, DemoCommand.class,
+            DataCommand.class, SynthCommand.class, CalibrateCommand.class, DemoCommand.class, RydbergCommand.class,
             CommandLine.HelpCommand.class})
 final class RitzwerkCommand implements Runnable {
 

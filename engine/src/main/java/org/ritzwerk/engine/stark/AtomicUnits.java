@@ -26,7 +26,8 @@ public final class AtomicUnits {
     /** The atomic unit of dipole moment, e a0, in C m. */
     public static final double DIPOLE_C_M = PhysicalConstants.E * BOHR_METRES;
     /** One atomic unit of polarizability over h, in Hz/(V/m)^2: (e a0)^2 / (E_h h). */
-    public static final double POLARIZABILITY_HZ_PER_V2M2 = DIPOLE_C_M * DIPOLE_C_M / (HARTREE_JOULES * PhysicalConstants.H);
+    public static final double POLARIZABILITY_HZ_PER_V2M2 =
+            DIPOLE_C_M * DIPOLE_C_M / (HARTREE_JOULES * PhysicalConstants.H);
 
     private AtomicUnits() {
     }
