@@ -38,7 +38,7 @@ import org.ritzwerk.engine.rydberg.RydbergException;
  * ({@link #solveDense} keeps the plain dense decomposition as the baseline).
  *
  * <p><b>Accuracy</b>: a state's energy converges as the n range grows around it (see the tests:
- * hydrogen's linear Stark effect, {@code (3/2) n (n1 - n2) F}, to 1e-7 in one manifold; the Rb
+ * hydrogen's linear Stark effect, {@code (3/2) n (n1 - n2) F}, within 1e-6 n^2 of the slope in one manifold; the Rb
  * 50S shift against the second-order polarizability). States at the edges of the n range are
  * not converged; keep a few n on each side of the states of interest.
  *
