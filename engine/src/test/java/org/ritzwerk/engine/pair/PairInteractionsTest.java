@@ -37,7 +37,7 @@ class PairInteractionsTest {
         }
     }
 
-    /** C6 grows as n*^11 (Saffman, Walker and Moelmer 2010, table I; from memory). */
+    /** C6 grows as n*^11 (common practice; Saffman, Walker and Moelmer 2010, from memory). */
     @Test
     void scalesAsTheEleventhPower() {
         for (int n : new int[] {40, 60, 90}) {

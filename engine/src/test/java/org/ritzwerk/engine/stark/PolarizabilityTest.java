@@ -33,7 +33,7 @@ class PolarizabilityTest {
         }
     }
 
-    /** alpha grows as n*^7 at high n (common practice: Gallagher, Rydberg Atoms (1994), table 2.2). */
+    /** alpha grows as n*^7 at high n (common practice; T. F. Gallagher, Rydberg Atoms (1994), from memory). */
     @Test
     void scalarPolarizabilityScalesAsTheSeventhPower() {
         double previousSlope = 0;

@@ -33,9 +33,9 @@ class StarkMapTest {
     }
 
     /**
-     * Hydrogen's linear Stark effect in one manifold: E = (3/2) n (n1 - n2) F (atomic units; H. A.
-     * Bethe and E. E. Salpeter, Quantum Mechanics of One- and Two-Electron Atoms (1957), eq. 51.4;
-     * common practice). With m_j = 1/2 the manifold holds m_l = 0 (n1 - n2 = -(n-1) ... n-1) and
+     * Hydrogen's linear Stark effect in one manifold: E = (3/2) n (n1 - n2) F (atomic units; the
+     * parabolic-coordinate result of H. A. Bethe and E. E. Salpeter, Quantum Mechanics of One- and
+     * Two-Electron Atoms (1957); common practice). With m_j = 1/2 the manifold holds m_l = 0 (n1 - n2 = -(n-1) ... n-1) and
      * m_l = 1 (n1 - n2 = -(n-2) ... n-2), 2n - 1 states.
      */
     @Test
