@@ -20,8 +20,7 @@ import org.ritzwerk.engine.stark.StarkException;
  * </pre>
  * (atomic units; the spherical components of the dipole operators as in
  * {@link AlkaliAtom#dipole(State, int, State, int, int)}, {@code a . b = sum_q (-1)^q a_q b_-q};
- * M. Saffman, T. G. Walker and K. Moelmer, Rev. Mod. Phys. 82, 2313 (2010), sec. III, from
- * memory; at theta = 0, w(0,0) = -2 and w(+-1,-+1) = -1, which the tests check).
+ * M. Saffman, T. G. Walker and K. Moelmer, Rev. Mod. Phys. 82, 2313 (2010), from memory; at theta = 0, w(0,0) = -2 and w(+-1,-+1) = -1, which the tests check).
  *
  * <p><b>C3</b> ({@link #c3Au}): the first-order coupling {@code R^3 <b|V|a>} of two pair states,
  * e.g. |nS, nP> and |nP, nS>, a product of two dipole elements. <b>C6</b> ({@link #c6}): the

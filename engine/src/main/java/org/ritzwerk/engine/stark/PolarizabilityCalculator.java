@@ -15,8 +15,8 @@ import org.ritzwerk.engine.rydberg.RydbergException;
  *   alpha_2 = 4 C sum_k (-1)^(j + j') {j 1 j'; 1 j 2} |&lt;a||d||k&gt;|^2 / (E_k - E_a),
  *   C = [5 j (2j - 1) / (6 (j + 1)(2j + 1)(2j + 3))]^(1/2)
  * </pre>
- * (the form of J. Mitroy, M. S. Safronova and C. W. Clark, J. Phys. B 43, 202001 (2010), eqs. 13
- * and 16, from memory; the phase of alpha_2 is fixed by the tests against the definition
+ * (the form of J. Mitroy, M. S. Safronova and C. W. Clark, J. Phys. B 43, 202001 (2010), from
+ * memory; the phase of alpha_2 is fixed by the tests against the definition
  * {@code alpha(m_j) = 2 sum_k |<a m|d_0|k m>|^2 / (E_k - E_a)} summed term by term with
  * {@link AlkaliAtom#dipole}: with this package's reduced elements it is {@code (-1)^(j + j')}, not the
  * {@code (-1)^(j + j' + 1)} recalled first, which gave alpha_2 with the wrong sign), with the reduced elements of
