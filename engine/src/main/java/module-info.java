@@ -20,7 +20,9 @@ module org.ritzwerk.engine {
     exports org.ritzwerk.engine.lines;
     exports org.ritzwerk.engine.plasma;
     exports org.ritzwerk.engine.profile;
+    exports org.ritzwerk.engine.pair;
     exports org.ritzwerk.engine.ritz;
     exports org.ritzwerk.engine.rydberg;
+    exports org.ritzwerk.engine.stark;
     exports org.ritzwerk.engine.synth;
 }

@@ -45,8 +45,10 @@ class ModuleExportsTest {
                     "org.ritzwerk.engine.lines",
                     "org.ritzwerk.engine.plasma",
                     "org.ritzwerk.engine.profile",
+                    "org.ritzwerk.engine.pair",
                     "org.ritzwerk.engine.ritz",
                     "org.ritzwerk.engine.rydberg",
+                    "org.ritzwerk.engine.stark",
                     "org.ritzwerk.engine.synth"),
             "refdata", Set.of(
                     "org.ritzwerk.refdata"));

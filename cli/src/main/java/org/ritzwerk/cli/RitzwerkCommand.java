@@ -16,8 +16,8 @@ import picocli.CommandLine.Command;
         footer = {"", "Safety: lamps, discharge tubes, plasma sources and lasers can hurt. Read the",
             "Safety section of README.md and follow your local rules before using them."},
         subcommands = {ConvertCommand.class, LevelsCommand.class, LinesCommand.class, IdentifyCommand.class,
-            DataCommand.class, SynthCommand.class, CalibrateCommand.class, DemoCommand.class, SeriesCommand.class,
-            CommandLine.HelpCommand.class})
+            DataCommand.class, SynthCommand.class, CalibrateCommand.class, SeriesCommand.class, RydbergCommand.class,
+            DemoCommand.class, CommandLine.HelpCommand.class})
 final class RitzwerkCommand implements Runnable {
 
     @CommandLine.Spec

@@ -583,6 +583,21 @@ public final class AlkaliAtom {
         return dipoleBohr(wavefunction(a), wavefunction(b));
     }
 
+    /**
+     * The radial dipole integral of two wavefunctions already at hand, so that a caller holding
+     * many of them (a Stark-map basis, a pair basis) need not go through the bounded cache.
+     *
+     * @param a the first function, from {@link #wavefunction(State)} of this atom
+     * @param b the second function, from {@link #wavefunction(State)} of this atom
+     * @return {@code <a|r|b>} in a0, with the dipole operator of the atom (as
+     *         {@link #radialDipoleBohr(State, State)})
+     */
+    public double radialDipoleBohr(RadialWavefunction a, RadialWavefunction b) {
+        Objects.requireNonNull(a, "a");
+        Objects.requireNonNull(b, "b");
+        return dipoleBohr(a, b);
+    }
+
     /** The radial dipole integral of two wavefunctions in a0, with the dipole operator of the atom. */
     private double dipoleBohr(RadialWavefunction a, RadialWavefunction b) {
         double scale = lengthScale();
@@ -614,6 +629,21 @@ public final class AlkaliAtom {
             throw new RydbergException(RydbergException.NOT_DIPOLE, a + " and " + b
                     + " are not connected by an electric-dipole transition (l must change by one)");
         }
+    }
+
+    /**
+     * The angular factor of the reduced dipole element, so that
+     * {@code reducedDipole(a, b) = reducedDipoleAngular(a, b) * radialDipoleBohr(a, b)}.
+     *
+     * @param a first state
+     * @param b second state, with l differing by one
+     * @return {@code (-1)^(l+s+j'+1) sqrt((2j+1)(2j'+1)) {l j s; j' l' 1} (-1)^l sqrt((2l+1)(2l'+1)) (l 1 l'; 0 0 0)}
+     *         (class comment), dimensionless; 0 when the j's do not couple
+     * @throws RydbergException when l and l' do not differ by one
+     */
+    public static double reducedDipoleAngular(State a, State b) {
+        checkDipole(a, b);
+        return reducedAngular(a, b);
     }
 
     /** The angular part of {@code <l j||d||l' j'>} in the class comment's convention. */

@@ -1,0 +1,36 @@
+package org.ritzwerk.benchmarks;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.engine.stark.StarkMapResult;
+
+/** The engine paths and the naive baselines of the Stark-map and C6 benchmarks agree. No timing here. */
+class StarkAndPairBenchmarksTest {
+
+    @Test
+    void bandedAndDenseMapsAgree() {
+        StarkMapBenchmark b = new StarkMapBenchmark();
+        b.nMax = 61;
+        b.fields = 2;
+        b.setUp();
+        StarkMapResult banded = b.banded();
+        StarkMapResult dense = b.naiveDense();
+        for (int f = 0; f < 2; f++) {
+            double[] e1 = banded.energiesPerCm(f);
+            double[] e2 = dense.energiesPerCm(f);
+            for (int i = 0; i < e1.length; i++) {
+                assertEquals(e2[i], e1[i], 1e-9);
+            }
+        }
+    }
+
+    @Test
+    void engineAndNaiveC6Agree() {
+        PairC6Benchmark b = new PairC6Benchmark();
+        b.n = 70;
+        b.setUp();
+        double engine = b.engine();
+        assertEquals(engine, b.naive(), 1e-9 * Math.abs(engine));
+    }
+}
