@@ -185,7 +185,7 @@ public final class SurveyCalibration {
                     finite(solution.rmsPixels()), finite(solution.reducedChiSquare()), solution.usedCount(),
                     solution.rejectedCount(), calibration.peaks().size(), calibration.strongPeaks(),
                     calibration.strongMatched(), finite(calibration.matchedFraction()), finite(calibration.coverage()),
-                    calibration.saturatedPeaks(), calibration.pairLabels(), calibration.description(), null, null);
+                    calibration.saturatedPeaks(), calibration.pairLabels().toArray(new String[0]), calibration.description(), null, null);
         }
 
         private static Double finite(double value) {

@@ -235,7 +235,7 @@ public final class SurveyIdentification {
                             orNaN(intensities, n), orNaN(widths, n)), report.identification(), report.lines(),
                             candidates));
                 }
-                return row(id, positions, report, plasma);
+                return row(id, positions, report, plasma == null ? null : plasma.toArray(new Row[0]));
             } catch (RitzwerkException e) {
                 return RowFactory.create(id, null, null, null, null, null, null, null, null, null, null, null, null,
                         null, e.code(), e.getMessage());
@@ -251,7 +251,7 @@ public final class SurveyIdentification {
             return none;
         }
 
-        private Row row(String id, double[] positions, IdentificationSearch.Report report, List<Row> plasma) {
+        private Row row(String id, double[] positions, IdentificationSearch.Report report, Row[] plasma) {
             Identification result = report.identification();
             LineCatalog lines = report.lines();
             List<Row> peakRows = new ArrayList<>(positions.length);
@@ -282,7 +282,7 @@ public final class SurveyIdentification {
                         s.strongInRange(), s.strongMatched(), s.strongByChance(), Setups.orNull(s.chanceProbability()),
                         Setups.orNull(s.presence())));
             }
-            return RowFactory.create(id, peakRows, result.count(Identification.MATCHED),
+            return RowFactory.create(id, peakRows.toArray(new Row[0]), result.count(Identification.MATCHED),
                     result.count(Identification.AMBIGUOUS), result.count(Identification.UNEXPLAINED),
                     velocity == null || velocity.matches() == 0 ? null : velocity.velocity(),
                     velocity == null ? null : sigma(velocity.velocityUncertainty(), velocity.matches()),
@@ -290,7 +290,7 @@ public final class SurveyIdentification {
                     offset == null || offset.matches() == 0 ? null : offset.value() * 1e9,
                     offset == null ? null : sigma(offset.uncertainty() * 1e9, offset.matches()),
                     offset == null ? null : offset.matches(),
-                    Arrays.asList(missingNames), presence, plasma, null, null);
+                    missingNames, presence.toArray(new Row[0]), plasma, null, null);
         }
 
         /** One line gives no uncertainty; nor does a fit whose uncertainty is not finite. */

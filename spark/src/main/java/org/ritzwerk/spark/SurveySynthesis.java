@@ -186,7 +186,7 @@ public final class SurveySynthesis {
                 truth.add(RowFactory.create(lines.label(i), lines.position(i), lines.photons(i), lines.gaussianFwhm(i),
                         lines.lorentzFwhm(i), spectrum.lineCounts(i)));
             }
-            return RowFactory.create(id, spectrum.counts(), spectrum.expectedCounts(), truth, null, null);
+            return RowFactory.create(id, spectrum.counts(), spectrum.expectedCounts(), truth.toArray(new Row[0]), null, null);
         }
     }
 }
