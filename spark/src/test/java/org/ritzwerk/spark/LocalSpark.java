@@ -24,6 +24,7 @@ final class LocalSpark {
                     .config("spark.driver.bindAddress", "127.0.0.1")
                     .config("spark.sql.shuffle.partitions", "2")
                     .config("spark.task.maxFailures", "1")
+                    .config("spark.sql.debug.maxToStringFields", "200")
                     .getOrCreate();
         }
         return session;
