@@ -159,84 +159,122 @@ public record IdentificationParameters(List<String> species, String model, int n
                 Double.NaN, "5 sigma", Double.NaN, Double.NaN, "nm", "vacuum", false, 0, Double.NaN);
     }
 
-    /** @param list species notations @return a copy with these engine species */
+    /**
+     * @param list species notations
+     * @return a copy with these engine species
+     */
     public IdentificationParameters withSpecies(List<String> list) {
         return new IdentificationParameters(list, model, nMax, components, lineSets, dataFiles, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
                 instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param id bohr, dirac, qed or hyperfine @param n highest upper n @return a copy */
+    /**
+     * @param id bohr, dirac, qed or hyperfine
+     * @param n highest upper n
+     * @return a copy
+     */
     public IdentificationParameters withModel(String id, int n) {
         return new IdentificationParameters(species, id, n, components, lineSets, dataFiles, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
                 instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param on fine-structure components instead of multiplets @return a copy */
+    /**
+     * @param on fine-structure components instead of multiplets
+     * @return a copy
+     */
     public IdentificationParameters withComponents(boolean on) {
         return new IdentificationParameters(species, model, nMax, on, lineSets, dataFiles, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
                 instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param ids data-set ids or line-list files @return a copy with these line sets */
+    /**
+     * @param ids data-set ids or line-list files
+     * @return a copy with these line sets
+     */
     public IdentificationParameters withLineSets(List<String> ids) {
         return new IdentificationParameters(species, model, nMax, components, ids, dataFiles, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
                 instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param files the user's data files, readable on every executor @return a copy */
+    /**
+     * @param files the user's data files, readable on every executor
+     * @return a copy
+     */
     public IdentificationParameters withDataFiles(List<String> files) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, files, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
                 instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param kelvin excitation temperature, K @return a copy */
+    /**
+     * @param kelvin excitation temperature, K
+     * @return a copy
+     */
     public IdentificationParameters withExcitationTemperature(double kelvin) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles, kelvin,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
                 instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param text the tolerance ("5 sigma", "0.02 nm", "20 ppm", "R=20000") @return a copy */
+    /**
+     * @param text the tolerance ("5 sigma", "0.02 nm", "20 ppm", "R=20000")
+     * @return a copy
+     */
     public IdentificationParameters withTolerance(String text) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, text, searchVelocity, searchOffsetNm, unit, medium,
                 plasma, instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param metresPerSecond largest |v| to search, m/s @return a copy */
+    /**
+     * @param metresPerSecond largest |v| to search, m/s
+     * @return a copy
+     */
     public IdentificationParameters withVelocitySearch(double metresPerSecond) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, metresPerSecond, searchOffsetNm, unit,
                 medium, plasma, instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param nanometres largest |offset| to search, nm @return a copy */
+    /**
+     * @param nanometres largest |offset| to search, nm
+     * @return a copy
+     */
     public IdentificationParameters withOffsetSearch(double nanometres) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, nanometres, unit, medium,
                 plasma, instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param symbol unit of the positions @param mediumSpec their medium @return a copy */
+    /**
+     * @param symbol unit of the positions
+     * @param mediumSpec their medium
+     * @return a copy
+     */
     public IdentificationParameters withUnit(String symbol, String mediumSpec) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, symbol,
                 mediumSpec, plasma, instrumentFwhmNm, resolvingPower);
     }
 
-    /** @param fwhmNm the spectrometer's Gaussian FWHM, nm @return a copy with the plasma estimate on */
+    /**
+     * @param fwhmNm the spectrometer's Gaussian FWHM, nm
+     * @return a copy with the plasma estimate on
+     */
     public IdentificationParameters withPlasmaEstimate(double fwhmNm) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit,
                 medium, true, fwhmNm, Double.NaN);
     }
 
-    /** @param r the response's lambda / FWHM @return a copy with the plasma estimate on */
+    /**
+     * @param r the response's lambda / FWHM
+     * @return a copy with the plasma estimate on
+     */
     public IdentificationParameters withPlasmaEstimateAtResolvingPower(double r) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit,

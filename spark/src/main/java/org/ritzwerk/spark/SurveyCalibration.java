@@ -254,7 +254,15 @@ public final class SurveyCalibration {
                 throw bad(id, "calibration_id", "calibration '" + calibrationId + "' is not a usable polynomial: "
                         + e.getMessage());
             }
-            return RowFactory.create(id, calibrationId, doubles(counts), solution.pixelCentreWavelengths(pixels),
+            double[] values = new double[pixels];
+            for (int i = 0; i < pixels; i++) {
+                Object value = counts.get(i);
+                if (value == null) {
+                    throw bad(id, "counts", "element " + i + " is null");
+                }
+                values[i] = (Double) value;
+            }
+            return RowFactory.create(id, calibrationId, values, solution.pixelCentreWavelengths(pixels),
                     solution.pixelCentreWavelengthSigmas(pixels), medium.spec());
         }
 
