@@ -21,7 +21,7 @@ import org.ritzwerk.quantity.Unit;
  * order: alkali atoms of {@code species}, then its one-electron ions (model {@code model}, upper
  * n up to {@code nMax}, multiplets unless {@code components}), then the {@code lineSets}. Over a
  * fixed window ({@link #inWindow}) every spectrum meets the same catalogue (relative strengths
- * are normalised over it); {@link #perSpectrumWindow()} instead builds each spectrum's
+ * are normalised over it); {@link #perSpectrumWindow(List, List)} instead builds each spectrum's
  * catalogue over its own peaks' window, exactly as the command does for one peak file.
  *
  * <p>An immutable, serialisable value (Spark broadcasts it once per job); the canonical
