@@ -16,7 +16,7 @@ import org.junit.jupiter.api.Test;
 class PublishedModulesTest {
 
     private static final List<String> PUBLISHED =
-            List.of("ritzwerk-api", "ritzwerk-engine", "ritzwerk-refdata", "ritzwerk-cli");
+            List.of("ritzwerk-api", "ritzwerk-engine", "ritzwerk-refdata", "ritzwerk-cli", "ritzwerk-spark");
 
     @Test
     void theBomPinsEveryPublishedModuleAtTheProjectVersion() {

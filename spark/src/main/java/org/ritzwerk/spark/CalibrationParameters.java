@@ -1,0 +1,171 @@
+package org.ritzwerk.spark;
+
+import java.io.Serializable;
+import java.util.List;
+import java.util.Objects;
+import org.ritzwerk.data.StrengthClass;
+import org.ritzwerk.engine.calibrate.Calibrator;
+import org.ritzwerk.engine.calibrate.DispersionFit;
+import org.ritzwerk.engine.calibrate.LampMatcher;
+import org.ritzwerk.engine.calibrate.PeakFinder;
+import org.ritzwerk.medium.Medium;
+
+/**
+ * What {@link SurveyCalibration} does with every lamp exposure: the lamp set (built-in lamp
+ * species and line lists), the medium of the solutions, the calibrator's settings and the prior.
+ * The same settings as the {@code calibrate} command's options, with the same defaults.
+ *
+ * <p>An immutable, serialisable value (Spark broadcasts it once per job); the canonical
+ * constructor checks every field as the engine does.
+ *
+ * @param lamps             species of built-in lamp sets ("Ne I", "Ar I", ...); may be empty
+ * @param lineSets          data-set ids or line-list files; may be empty, not together with lamps
+ * @param dataFiles         the user's data files, first in precedence; readable on every executor
+ * @param medium            medium of the solutions' wavelengths: "air", "vacuum" or "air(&lt;model&gt;)"
+ * @param minStrength       the weakest lamp-line strength class to use (its id), or null for all
+ * @param threshold         peak detection threshold, signal to noise
+ * @param tolerancePixels   how far a peak may lie from its line's predicted pixel
+ * @param minMatched        the fraction of the strongest peaks that must pair with lines, 0 to 1
+ * @param clip              the fit's outlier clipping, standard deviations
+ * @param degree            the polynomial degree, 1 to 9; 0 to choose it (up to maxDegree)
+ * @param maxDegree         the highest degree an automatic choice may take, 1 to 9
+ * @param saturation        the counts at which a pixel saturates; NaN for none
+ * @param priorFromNm       lowest wavelength any pixel may see, nm in the medium; NaN for no bound
+ * @param priorToNm         highest such wavelength; NaN with priorFromNm
+ * @param minDispersion     lowest dispersion, nm per pixel (negative when wavelength falls)
+ * @param maxDispersion     highest dispersion, nm per pixel
+ */
+public record CalibrationParameters(List<String> lamps, List<String> lineSets, List<String> dataFiles, String medium,
+        String minStrength, double threshold, double tolerancePixels, double minMatched, double clip, int degree,
+        int maxDegree, double saturation, double priorFromNm, double priorToNm, double minDispersion,
+        double maxDispersion) implements Serializable {
+
+    private static final long serialVersionUID = 1L;
+
+    /**
+     * Checks every field and copies the lists.
+     *
+     * @param lamps           as above
+     * @param lineSets        as above
+     * @param dataFiles       as above
+     * @param medium          as above
+     * @param minStrength     as above
+     * @param threshold       as above
+     * @param tolerancePixels as above
+     * @param minMatched      as above
+     * @param clip            as above
+     * @param degree          as above
+     * @param maxDegree       as above
+     * @param saturation      as above
+     * @param priorFromNm     as above
+     * @param priorToNm       as above
+     * @param minDispersion   as above
+     * @param maxDispersion   as above
+     */
+    public CalibrationParameters {
+        lamps = List.copyOf(lamps);
+        lineSets = List.copyOf(lineSets);
+        dataFiles = List.copyOf(dataFiles);
+        if (lamps.isEmpty() && lineSets.isEmpty()) {
+            throw new IllegalArgumentException("give the lamp: lamps (built-in sets) and/or lineSets");
+        }
+        Medium.parse(Objects.requireNonNull(medium, "medium"));
+        if (minStrength != null) {
+            StrengthClass.fromId(minStrength);
+        }
+        if (Double.isNaN(priorFromNm) != Double.isNaN(priorToNm)) {
+            throw new IllegalArgumentException("priorFromNm and priorToNm must both be given or both be NaN");
+        }
+        calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation);
+        prior(priorFromNm, priorToNm, minDispersion, maxDispersion);
+    }
+
+    /**
+     * @param lamps    species of built-in lamp sets
+     * @param lineSets data-set ids or line-list files
+     * @return the {@code calibrate} command's defaults: air, every strength, threshold 5, tolerance
+     *         3 pixels, 60 % matched, clipping at 3.5, automatic degree up to 3, no saturation, no prior
+     */
+    public static CalibrationParameters of(List<String> lamps, List<String> lineSets) {
+        return new CalibrationParameters(lamps, lineSets, List.of(), "air", null, PeakFinder.DEFAULT_THRESHOLD,
+                Calibrator.DEFAULT_TOLERANCE, Calibrator.DEFAULT_MIN_MATCHED, DispersionFit.DEFAULT_CLIP, 0,
+                Calibrator.DEFAULT_MAX_DEGREE, Double.NaN, Double.NaN, Double.NaN,
+                LampMatcher.Prior.none().minDispersion(), LampMatcher.Prior.none().maxDispersion());
+    }
+
+    /**
+     * @param mediumSpec "air", "vacuum" or "air(&lt;model&gt;)"
+     * @return a copy whose solutions give wavelengths in that medium
+     */
+    public CalibrationParameters withMedium(String mediumSpec) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, mediumSpec, minStrength, threshold,
+                tolerancePixels, minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion,
+                maxDispersion);
+    }
+
+    /**
+     * @param files the user's data files, readable at these paths on every executor
+     * @return a copy
+     */
+    public CalibrationParameters withDataFiles(List<String> files) {
+        return new CalibrationParameters(lamps, lineSets, files, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion);
+    }
+
+    /**
+     * @param fixed the polynomial degree, 1 to 9; 0 for an automatic choice up to {@code highest}
+     * @param highest the highest automatic degree, 1 to 9
+     * @return a copy
+     */
+    public CalibrationParameters withDegree(int fixed, int highest) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, fixed, highest, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion);
+    }
+
+    /**
+     * @param counts the level at which a pixel saturates
+     * @return a copy
+     */
+    public CalibrationParameters withSaturation(double counts) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, counts, priorFromNm, priorToNm, minDispersion, maxDispersion);
+    }
+
+    /**
+     * @param fromNm lowest wavelength any pixel may see, nm in the solutions' medium
+     * @param toNm   highest such wavelength
+     * @param minNmPerPixel lowest dispersion
+     * @param maxNmPerPixel highest dispersion
+     * @return a copy with that prior
+     */
+    public CalibrationParameters withPrior(double fromNm, double toNm, double minNmPerPixel, double maxNmPerPixel) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, saturation, fromNm, toNm, minNmPerPixel, maxNmPerPixel);
+    }
+
+    /** @return the calibrator these settings describe (as the command configures it) */
+    Calibrator calibrator() {
+        return calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation);
+    }
+
+    private static Calibrator calibrator(double threshold, double tolerancePixels, double minMatched, double clip,
+            int degree, int maxDegree, double saturation) {
+        Calibrator calibrator = Calibrator.defaults().withThreshold(threshold).withTolerance(tolerancePixels)
+                .withMinMatchedFraction(minMatched).withClipping(clip);
+        calibrator = degree == 0 ? calibrator.withAutomaticDegree(maxDegree) : calibrator.withDegree(degree);
+        return Double.isNaN(saturation) ? calibrator : calibrator.withSaturationLevel(saturation);
+    }
+
+    /** @return the prior these settings describe */
+    LampMatcher.Prior prior() {
+        return prior(priorFromNm, priorToNm, minDispersion, maxDispersion);
+    }
+
+    private static LampMatcher.Prior prior(double from, double to, double minDispersion, double maxDispersion) {
+        if (Double.isNaN(from)) {
+            LampMatcher.Prior none = LampMatcher.Prior.none();
+            return new LampMatcher.Prior(none.minWavelengthNm(), none.maxWavelengthNm(), minDispersion, maxDispersion);
+        }
+        return new LampMatcher.Prior(Math.min(from, to), Math.max(from, to), minDispersion, maxDispersion);
+    }
+}

@@ -1,0 +1,185 @@
+package org.ritzwerk.spark;
+
+import java.io.Serializable;
+import java.util.List;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.types.DataType;
+import org.apache.spark.sql.types.StructField;
+import org.apache.spark.sql.types.StructType;
+
+/**
+ * Where an input table keeps the columns an operation reads, checked against the documented
+ * schema once on the driver, and the checked reading of one row's fields inside the tasks. Every
+ * refusal names the row's id and the field.
+ */
+final class Fields implements Serializable {
+    private static final long serialVersionUID = 1L;
+
+    /** Column index per field of the documented schema; -1 for an absent optional column. */
+    private final int[] index;
+    private final String[] names;
+
+    private Fields(int[] index, String[] names) {
+        this.index = index;
+        this.names = names;
+    }
+
+    /**
+     * @param actual   the table's schema
+     * @param expected the documented schema
+     * @param table    the table's role, for messages
+     * @return the columns' places
+     * @throws SparkRowException when a required column is missing or a column has another type
+     */
+    static Fields of(StructType actual, StructType expected, String table) {
+        StructField[] fields = expected.fields();
+        int[] index = new int[fields.length];
+        String[] names = new String[fields.length];
+        List<String> present = List.of(actual.fieldNames());
+        for (int k = 0; k < fields.length; k++) {
+            names[k] = fields[k].name();
+            int at = present.indexOf(fields[k].name());
+            if (at < 0) {
+                if (!fields[k].nullable()) {
+                    throw new SparkRowException(SparkRowException.BAD_SCHEMA, null, fields[k].name(), "the " + table
+                            + " table has no such column (its columns: " + String.join(", ", present) + ")");
+                }
+                index[k] = -1;
+                continue;
+            }
+            DataType type = actual.fields()[at].dataType();
+            if (!sameType(type, fields[k].dataType())) {
+                throw new SparkRowException(SparkRowException.BAD_SCHEMA, null, fields[k].name(), "the " + table
+                        + " table has it as " + type.simpleString() + ", not " + fields[k].dataType().simpleString());
+            }
+            index[k] = at;
+        }
+        return new Fields(index, names);
+    }
+
+    /** Types compare without their nullability: a nullable array is checked row by row. */
+    private static boolean sameType(DataType a, DataType b) {
+        return a.simpleString().equals(b.simpleString());
+    }
+
+    /** @return the field's name */
+    String name(int field) {
+        return names[field];
+    }
+
+    /** @return the row's id (field 0, a required string) */
+    String id(Row row) {
+        Object id = row.get(index[0]);
+        if (id == null) {
+            throw new SparkRowException(SparkRowException.BAD_FIELD, "null", names[0], "the id is null");
+        }
+        return (String) id;
+    }
+
+    private boolean isNull(Row row, int field) {
+        return index[field] < 0 || row.isNullAt(index[field]);
+    }
+
+    private SparkRowException bad(String id, int field, String message) {
+        return new SparkRowException(SparkRowException.BAD_FIELD, id, names[field], message);
+    }
+
+    /** @return the string, checked not null and not blank */
+    String string(Row row, String id, int field) {
+        if (isNull(row, field)) {
+            throw bad(id, field, "is null");
+        }
+        String value = row.getString(index[field]);
+        if (value.isBlank()) {
+            throw bad(id, field, "is blank");
+        }
+        return value;
+    }
+
+    /** @return the double, checked not null and finite */
+    double number(Row row, String id, int field) {
+        if (isNull(row, field)) {
+            throw bad(id, field, "is null");
+        }
+        double value = row.getDouble(index[field]);
+        if (!Double.isFinite(value)) {
+            throw bad(id, field, "is " + value + ", not a finite number");
+        }
+        return value;
+    }
+
+    /** @return the double, or NaN when the column is absent or null; a present value checked finite */
+    double optionalNumber(Row row, String id, int field) {
+        return isNull(row, field) ? Double.NaN : number(row, id, field);
+    }
+
+    /** @return the long, checked not null */
+    long whole(Row row, String id, int field) {
+        if (isNull(row, field)) {
+            throw bad(id, field, "is null");
+        }
+        return row.getLong(index[field]);
+    }
+
+    /** @return the strings, checked not null, not empty and without null or blank elements */
+    String[] strings(Row row, String id, int field) {
+        if (isNull(row, field)) {
+            throw bad(id, field, "is null");
+        }
+        List<String> list = row.getList(index[field]);
+        if (list.isEmpty()) {
+            throw bad(id, field, "is empty");
+        }
+        String[] values = new String[list.size()];
+        for (int i = 0; i < values.length; i++) {
+            String value = list.get(i);
+            if (value == null || value.isBlank()) {
+                throw bad(id, field, "element " + i + " is " + (value == null ? "null" : "blank"));
+            }
+            values[i] = value;
+        }
+        return values;
+    }
+
+    /**
+     * @param length the length the array must have, or -1 for any non-zero length
+     * @param floor  the lowest allowed element (elements must be finite and at least this)
+     * @param above  whether the floor itself is excluded
+     * @return the doubles, or null when the column is absent or null
+     */
+    double[] optionalDoubles(Row row, String id, int field, int length, double floor, boolean above) {
+        if (isNull(row, field)) {
+            return null;
+        }
+        List<Object> list = row.getList(index[field]);
+        if (length >= 0 && list.size() != length) {
+            throw bad(id, field, "has " + list.size() + " elements, but " + names[1] + " has " + length);
+        }
+        if (list.isEmpty()) {
+            throw bad(id, field, "is empty");
+        }
+        double[] values = new double[list.size()];
+        for (int i = 0; i < values.length; i++) {
+            Object element = list.get(i);
+            if (element == null) {
+                throw bad(id, field, "element " + i + " is null");
+            }
+            double value = (Double) element;
+            if (!Double.isFinite(value) || value < floor || above && value == floor) {
+                throw bad(id, field, "element " + i + " is " + value + "; each must be finite and "
+                        + (above ? "above " : "at least ") + floor);
+            }
+            values[i] = value;
+        }
+        return values;
+    }
+
+    /** @return the doubles, as {@link #optionalDoubles} but required */
+    double[] doubles(Row row, String id, int field, int length, double floor, boolean above) {
+        double[] values = optionalDoubles(row, id, field, length, floor, above);
+        if (values == null) {
+            throw bad(id, field, "is null");
+        }
+        return values;
+    }
+}

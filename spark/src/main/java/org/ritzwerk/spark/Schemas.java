@@ -1,0 +1,282 @@
+package org.ritzwerk.spark;
+
+import org.apache.spark.sql.types.ArrayType;
+import org.apache.spark.sql.types.DataType;
+import org.apache.spark.sql.types.DataTypes;
+import org.apache.spark.sql.types.StructField;
+import org.apache.spark.sql.types.StructType;
+
+/**
+ * The tables the operations read and write. Input tables need the named columns with these
+ * types (other columns are ignored; column order is free); output tables have exactly these
+ * columns in this order. Arrays hold no null elements; a nullable column may be null as a whole.
+ * Doubles that a job leaves undefined (a residual of an unexplained peak, a presence without
+ * strong lines) are null, never NaN.
+ */
+public final class Schemas {
+
+    private Schemas() {
+    }
+
+    private static final ArrayType DOUBLES = DataTypes.createArrayType(DataTypes.DoubleType, false);
+    private static final ArrayType STRINGS = DataTypes.createArrayType(DataTypes.StringType, false);
+
+    private static StructField required(String name, DataType type) {
+        return DataTypes.createStructField(name, type, false);
+    }
+
+    private static StructField optional(String name, DataType type) {
+        return DataTypes.createStructField(name, type, true);
+    }
+
+    private static StructType struct(StructField... fields) {
+        return DataTypes.createStructType(fields);
+    }
+
+    /**
+     * Identification input, one row per spectrum: {@code id} string; {@code positions}
+     * array&lt;double&gt; (the peaks, in the unit and medium of {@link IdentificationParameters});
+     * {@code sigmas} array&lt;double&gt;, nullable (standard uncertainties, same unit; needed by a
+     * k-sigma tolerance); {@code intensities} array&lt;double&gt;, nullable (photon counts or
+     * proportional); {@code widths} array&lt;double&gt;, nullable (FWHMs, same unit, for the
+     * plasma estimate). Arrays of one row have one element per peak.
+     */
+    public static final StructType PEAK_LISTS = struct(
+            required("id", DataTypes.StringType),
+            required("positions", DOUBLES),
+            optional("sigmas", DOUBLES),
+            optional("intensities", DOUBLES),
+            optional("widths", DOUBLES));
+
+    /**
+     * Identification input, one row per peak (turned into {@link #PEAK_LISTS} by
+     * {@link SurveyIdentification#peakLists}): {@code id} string (the spectrum); {@code peak} int
+     * (the peak's place in its spectrum, 0-based, ordering the arrays); {@code position} double;
+     * {@code sigma}, {@code intensity}, {@code width} double, nullable (a spectrum's column is
+     * used only when every one of its peaks gives it).
+     */
+    public static final StructType PEAK_ROWS = struct(
+            required("id", DataTypes.StringType),
+            required("peak", DataTypes.IntegerType),
+            required("position", DataTypes.DoubleType),
+            optional("sigma", DataTypes.DoubleType),
+            optional("intensity", DataTypes.DoubleType),
+            optional("width", DataTypes.DoubleType));
+
+    /**
+     * One identified peak: {@code peak} (0-based index in its spectrum), {@code position} (as
+     * given), {@code status} ({@code matched}, {@code ambiguous} or {@code unexplained}),
+     * {@code species} and {@code line} (the line's label), {@code line_position} (the line as
+     * matched, shifted by the velocity and offset found, in the peaks' unit and medium),
+     * {@code residual} (position minus line_position) and {@code residual_sigma} (the residual
+     * over its scoring uncertainty); the last four null when unexplained.
+     */
+    public static final StructType IDENTIFIED_PEAK = struct(
+            required("peak", DataTypes.IntegerType),
+            required("position", DataTypes.DoubleType),
+            required("status", DataTypes.StringType),
+            optional("species", DataTypes.StringType),
+            optional("line", DataTypes.StringType),
+            optional("line_position", DataTypes.DoubleType),
+            optional("residual", DataTypes.DoubleType),
+            optional("residual_sigma", DataTypes.DoubleType));
+
+    /**
+     * A species' presence weighed against chance (the engine's
+     * {@code Identification.SpeciesPresence}): {@code species}, {@code matched},
+     * {@code matched_by_chance}, {@code strong_in_range}, {@code strong_matched},
+     * {@code strong_by_chance}, {@code chance_probability} and {@code presence} (both null when
+     * the species has no strong line in range).
+     */
+    public static final StructType PRESENCE = struct(
+            required("species", DataTypes.StringType),
+            required("matched", DataTypes.IntegerType),
+            required("matched_by_chance", DataTypes.DoubleType),
+            required("strong_in_range", DataTypes.IntegerType),
+            required("strong_matched", DataTypes.IntegerType),
+            required("strong_by_chance", DataTypes.DoubleType),
+            optional("chance_probability", DataTypes.DoubleType),
+            optional("presence", DataTypes.DoubleType));
+
+    /**
+     * One plasma diagnostic (the engine's {@code PlasmaEstimate.Row}): {@code species},
+     * {@code quantity} (e.g. an excitation temperature or an electron density), {@code value} and
+     * {@code uncertainty} in {@code unit} (null when not estimated), {@code lines} used and a
+     * {@code note}.
+     */
+    public static final StructType PLASMA = struct(
+            required("species", DataTypes.StringType),
+            required("quantity", DataTypes.StringType),
+            optional("value", DataTypes.DoubleType),
+            optional("uncertainty", DataTypes.DoubleType),
+            required("unit", DataTypes.StringType),
+            optional("lines", DataTypes.StringType),
+            optional("note", DataTypes.StringType));
+
+    /**
+     * Identification output, one row per spectrum: {@code id}; {@code peaks} (array of
+     * {@link #IDENTIFIED_PEAK}, in the input's order); counts {@code matched}, {@code ambiguous},
+     * {@code unexplained}; {@code velocity_m_s}, {@code velocity_sigma_m_s},
+     * {@code velocity_lines} (when a velocity is searched: null value when no line matched at any
+     * velocity, null sigma from fewer than two lines); {@code offset_nm}, {@code offset_sigma_nm},
+     * {@code offset_lines} (the same for an offset search, vacuum nm); {@code missing_strong}
+     * (strong lines in range left unmatched, "species label"); {@code presence} (array of
+     * {@link #PRESENCE}); {@code plasma} (array of {@link #PLASMA}, null unless asked for);
+     * {@code failure_code} and {@code failure} (the job's error code and message when it refused
+     * this spectrum, every other result column then null).
+     */
+    public static final StructType IDENTIFIED_SPECTRA = struct(
+            required("id", DataTypes.StringType),
+            optional("peaks", DataTypes.createArrayType(IDENTIFIED_PEAK, false)),
+            optional("matched", DataTypes.IntegerType),
+            optional("ambiguous", DataTypes.IntegerType),
+            optional("unexplained", DataTypes.IntegerType),
+            optional("velocity_m_s", DataTypes.DoubleType),
+            optional("velocity_sigma_m_s", DataTypes.DoubleType),
+            optional("velocity_lines", DataTypes.IntegerType),
+            optional("offset_nm", DataTypes.DoubleType),
+            optional("offset_sigma_nm", DataTypes.DoubleType),
+            optional("offset_lines", DataTypes.IntegerType),
+            optional("missing_strong", STRINGS),
+            optional("presence", DataTypes.createArrayType(PRESENCE, false)),
+            optional("plasma", DataTypes.createArrayType(PLASMA, false)),
+            optional("failure_code", DataTypes.StringType),
+            optional("failure", DataTypes.StringType));
+
+    /**
+     * Identification output, one row per peak ({@link SurveyIdentification.Result#peaks()}):
+     * {@code id} of the spectrum followed by the columns of {@link #IDENTIFIED_PEAK}.
+     */
+    public static final StructType IDENTIFIED_PEAKS = struct(concat(
+            new StructField[] {required("id", DataTypes.StringType)}, IDENTIFIED_PEAK.fields()));
+
+    /**
+     * Calibration input, one row per raw lamp exposure: {@code id} string; {@code counts}
+     * array&lt;double&gt; (counts per pixel, pixel 0 first); {@code sigmas} array&lt;double&gt;,
+     * nullable (their standard uncertainties; from the counts when null).
+     */
+    public static final StructType EXPOSURES = struct(
+            required("id", DataTypes.StringType),
+            required("counts", DOUBLES),
+            optional("sigmas", DOUBLES));
+
+    /**
+     * Calibration output, one row per exposure: {@code id}; {@code pixels}; the dispersion
+     * polynomial (the api's {@code DispersionPolynomial}): {@code medium} ({@code air} or
+     * {@code vacuum}), {@code degree}, {@code centre_pixel}, {@code half_range},
+     * {@code coefficients} (a_0 .. a_d in nm of x = (pixel - centre_pixel) / half_range),
+     * {@code covariance} (their (d + 1) x (d + 1) covariance in nm^2, row by row),
+     * {@code lowest_pixel}, {@code highest_pixel}; quality: {@code rms_nm}, {@code rms_pixels},
+     * {@code reduced_chi_square}, {@code lines_used}, {@code lines_rejected},
+     * {@code peaks_found}, {@code strong_peaks}, {@code strong_matched},
+     * {@code matched_fraction}, {@code coverage} (fraction of the detector between the outermost
+     * lines used), {@code saturated_peaks}, {@code lines} (the pairs' labels, in the solution's
+     * order), {@code description}; {@code failure_code} and {@code failure} when the job refused
+     * the exposure (every other column but id and pixels then null).
+     */
+    public static final StructType CALIBRATIONS = struct(
+            required("id", DataTypes.StringType),
+            required("pixels", DataTypes.IntegerType),
+            optional("medium", DataTypes.StringType),
+            optional("degree", DataTypes.IntegerType),
+            optional("centre_pixel", DataTypes.DoubleType),
+            optional("half_range", DataTypes.DoubleType),
+            optional("coefficients", DOUBLES),
+            optional("covariance", DOUBLES),
+            optional("lowest_pixel", DataTypes.DoubleType),
+            optional("highest_pixel", DataTypes.DoubleType),
+            optional("rms_nm", DataTypes.DoubleType),
+            optional("rms_pixels", DataTypes.DoubleType),
+            optional("reduced_chi_square", DataTypes.DoubleType),
+            optional("lines_used", DataTypes.IntegerType),
+            optional("lines_rejected", DataTypes.IntegerType),
+            optional("peaks_found", DataTypes.IntegerType),
+            optional("strong_peaks", DataTypes.IntegerType),
+            optional("strong_matched", DataTypes.IntegerType),
+            optional("matched_fraction", DataTypes.DoubleType),
+            optional("coverage", DataTypes.DoubleType),
+            optional("saturated_peaks", DataTypes.IntegerType),
+            optional("lines", STRINGS),
+            optional("description", DataTypes.StringType),
+            optional("failure_code", DataTypes.StringType),
+            optional("failure", DataTypes.StringType));
+
+    /**
+     * Input of applying calibrations, one row per science spectrum: {@code id} string;
+     * {@code calibration_id} string (the {@code id} of a row of {@link #CALIBRATIONS});
+     * {@code counts} array&lt;double&gt;.
+     */
+    public static final StructType SCIENCE = struct(
+            required("id", DataTypes.StringType),
+            required("calibration_id", DataTypes.StringType),
+            required("counts", DOUBLES));
+
+    /**
+     * Output of applying calibrations: {@code id}, {@code calibration_id}, {@code counts} (as
+     * given), {@code wavelengths_nm} (each pixel centre's wavelength in the calibration's
+     * medium), {@code wavelength_sigmas_nm} (their standard uncertainties from the covariance)
+     * and {@code medium}.
+     */
+    public static final StructType CALIBRATED = struct(
+            required("id", DataTypes.StringType),
+            required("calibration_id", DataTypes.StringType),
+            required("counts", DOUBLES),
+            required("wavelengths_nm", DOUBLES),
+            required("wavelength_sigmas_nm", DOUBLES),
+            required("medium", DataTypes.StringType));
+
+    /**
+     * Synthesis input, one row per scene: {@code id} string; {@code species} array&lt;string&gt;
+     * (one-electron ions such as {@code "H I"}, {@code "He II"} and neutral alkali atoms such as
+     * {@code "Na I"}); {@code abundances} array&lt;double&gt;, nullable (relative numbers of
+     * atoms, one per species; 1 each when null); {@code temperature_k}; {@code electron_density_m3},
+     * nullable (Saha balance and Stark widths when given); {@code velocity_m_s} (line-of-sight,
+     * positive away); {@code resolving_power} (the instrument's lambda / FWHM); {@code seed} long
+     * (the noise draw of this row).
+     */
+    public static final StructType SCENES = struct(
+            required("id", DataTypes.StringType),
+            required("species", STRINGS),
+            optional("abundances", DOUBLES),
+            required("temperature_k", DataTypes.DoubleType),
+            optional("electron_density_m3", DataTypes.DoubleType),
+            required("velocity_m_s", DataTypes.DoubleType),
+            required("resolving_power", DataTypes.DoubleType),
+            required("seed", DataTypes.LongType));
+
+    /**
+     * One line of a synthetic spectrum's truth (the engine's {@code Scene.Lines}):
+     * {@code label}, {@code position_nm} (centre in the grid's medium, Doppler-shifted),
+     * {@code photons} (photon rate before scaling), {@code gaussian_fwhm_nm} (Doppler),
+     * {@code lorentz_fwhm_nm} (collisional, natural and Stark) and {@code counts} (the line's
+     * expected counts on the detector).
+     */
+    public static final StructType TRUE_LINE = struct(
+            required("label", DataTypes.StringType),
+            required("position_nm", DataTypes.DoubleType),
+            required("photons", DataTypes.DoubleType),
+            required("gaussian_fwhm_nm", DataTypes.DoubleType),
+            required("lorentz_fwhm_nm", DataTypes.DoubleType),
+            required("counts", DataTypes.DoubleType));
+
+    /**
+     * Synthesis output, one row per scene: {@code id}; {@code counts} (with noise, one per pixel
+     * of the grid in {@link SynthesisParameters}); {@code expected_counts} (without noise);
+     * {@code lines} (the truth, array of {@link #TRUE_LINE}); {@code failure_code} and
+     * {@code failure} when the job refused the scene (e.g. no line carries light in the grid).
+     */
+    public static final StructType SPECTRA = struct(
+            required("id", DataTypes.StringType),
+            optional("counts", DOUBLES),
+            optional("expected_counts", DOUBLES),
+            optional("lines", DataTypes.createArrayType(TRUE_LINE, false)),
+            optional("failure_code", DataTypes.StringType),
+            optional("failure", DataTypes.StringType));
+
+    private static StructField[] concat(StructField[] a, StructField[] b) {
+        StructField[] all = new StructField[a.length + b.length];
+        System.arraycopy(a, 0, all, 0, a.length);
+        System.arraycopy(b, 0, all, a.length, b.length);
+        return all;
+    }
+}

@@ -1,0 +1,277 @@
+package org.ritzwerk.spark;
+
+import static org.apache.spark.sql.functions.col;
+
+import java.util.ArrayList;
+import java.util.Iterator;
+import java.util.List;
+import java.util.Objects;
+import org.apache.spark.api.java.JavaSparkContext;
+import org.apache.spark.api.java.function.MapPartitionsFunction;
+import org.apache.spark.broadcast.Broadcast;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Encoders;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.types.StructType;
+import org.ritzwerk.RitzwerkException;
+import org.ritzwerk.data.DispersionPolynomial;
+import org.ritzwerk.data.LineList;
+import org.ritzwerk.data.StrengthClass;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.calibrate.Calibration;
+import org.ritzwerk.engine.calibrate.CalibrationProblem;
+import org.ritzwerk.engine.calibrate.Calibrator;
+import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.engine.calibrate.LampMatcher;
+import org.ritzwerk.engine.calibrate.LampSet;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * Wavelength calibration of many lamp exposures on Spark, and its application to science
+ * spectra. {@link #calibrate} gives, for every row of a {@link Schemas#EXPOSURES} table, exactly
+ * the library's {@code Calibrator.calibrate(CalibrationProblem)} with the lamp set and settings of
+ * the {@link CalibrationParameters}; {@link #apply} gives every science spectrum the wavelengths
+ * of its calibration's polynomial, as {@code calibrate --apply} does with a saved calibration
+ * ({@code DispersionSolution.of(polynomial).pixelCentreWavelengths(pixels)} and
+ * {@code pixelCentreWavelengthSigmas}).
+ *
+ * <p>The parameters are broadcast once; each partition builds the lamp set and the calibrator
+ * once. A malformed row fails the job with a {@link SparkRowException} naming the row's id and
+ * field; an exposure the calibrator refuses gets its error code and message in
+ * {@code failure_code} and {@code failure}.
+ *
+ * <p>Immutable and thread-safe; the operations are lazy transformations.
+ */
+public final class SurveyCalibration {
+
+    private final CalibrationParameters parameters;
+
+    private SurveyCalibration(CalibrationParameters parameters) {
+        this.parameters = Objects.requireNonNull(parameters, "parameters");
+    }
+
+    /**
+     * @param parameters the lamp and the calibrator's settings
+     * @return the operation; the lamp set is built once here on the driver as a check
+     */
+    public static SurveyCalibration of(CalibrationParameters parameters) {
+        new Setup(parameters);
+        return new SurveyCalibration(parameters);
+    }
+
+    /** @return the parameters */
+    public CalibrationParameters parameters() {
+        return parameters;
+    }
+
+    /**
+     * @param exposures a table with the columns of {@link Schemas#EXPOSURES}
+     * @return one calibration per exposure, {@link Schemas#CALIBRATIONS} (lazy)
+     * @throws SparkRowException when a column is missing or has another type
+     */
+    public Dataset<Row> calibrate(Dataset<Row> exposures) {
+        Fields fields = Fields.of(exposures.schema(), Schemas.EXPOSURES, "exposure");
+        Broadcast<CalibrationParameters> shared = JavaSparkContext
+                .fromSparkContext(exposures.sparkSession().sparkContext()).broadcast(parameters);
+        return exposures.mapPartitions(new CalibrateTask(shared, fields), Encoders.row(Schemas.CALIBRATIONS));
+    }
+
+    /** The columns of a calibration that applying it reads, in this order after the science columns. */
+    private static final String[] APPLIED = {"id", "pixels", "medium", "centre_pixel", "half_range", "coefficients",
+        "covariance", "lowest_pixel", "highest_pixel", "failure_code", "failure"};
+
+    /**
+     * @param science      a table with the columns of {@link Schemas#SCIENCE}
+     * @param calibrations a table with the columns of {@link Schemas#CALIBRATIONS} (as
+     *                     {@link #calibrate} makes it, or read back from storage); joined on
+     *                     {@code science.calibration_id = calibrations.id} (Spark broadcasts the
+     *                     calibrations when they are small)
+     * @return every science spectrum with its wavelengths, {@link Schemas#CALIBRATED} (lazy); a
+     *         spectrum whose calibration is missing, refused, or made for another pixel count fails
+     *         the job with a {@link SparkRowException} naming the spectrum
+     */
+    public static Dataset<Row> apply(Dataset<Row> science, Dataset<Row> calibrations) {
+        Fields.of(science.schema(), Schemas.SCIENCE, "science");
+        StructType wanted = new StructType();
+        for (String name : APPLIED) {
+            wanted = wanted.add(Schemas.CALIBRATIONS.apply(name));
+        }
+        Fields.of(calibrations.schema(), wanted, "calibration");
+        Dataset<Row> left = science.select(col("id"), col("calibration_id"), col("counts"));
+        org.apache.spark.sql.Column[] right = new org.apache.spark.sql.Column[APPLIED.length];
+        for (int k = 0; k < APPLIED.length; k++) {
+            right[k] = col(APPLIED[k]).as("c_" + APPLIED[k]);
+        }
+        Dataset<Row> solutions = calibrations.select(right);
+        Dataset<Row> joined = left.join(solutions, left.col("calibration_id").equalTo(solutions.col("c_id")), "left")
+                .select(left.col("id"), left.col("calibration_id"), left.col("counts"), col("c_id"), col("c_pixels"),
+                        col("c_medium"), col("c_centre_pixel"), col("c_half_range"), col("c_coefficients"),
+                        col("c_covariance"), col("c_lowest_pixel"), col("c_highest_pixel"), col("c_failure_code"),
+                        col("c_failure"));
+        return joined.mapPartitions(new ApplyTask(), Encoders.row(Schemas.CALIBRATED));
+    }
+
+    /** One partition of exposures: the lamp set and calibrator once, then one row per exposure. */
+    private static final class CalibrateTask implements MapPartitionsFunction<Row, Row> {
+        private static final long serialVersionUID = 1L;
+        private final Broadcast<CalibrationParameters> shared;
+        private final Fields fields;
+
+        CalibrateTask(Broadcast<CalibrationParameters> shared, Fields fields) {
+            this.shared = shared;
+            this.fields = fields;
+        }
+
+        @Override
+        public Iterator<Row> call(Iterator<Row> rows) {
+            if (!rows.hasNext()) {
+                return rows;
+            }
+            Setup setup = new Setup(shared.value());
+            return Setups.map(rows, row -> setup.calibrate(fields, row));
+        }
+    }
+
+    /** The lamp set, calibrator and prior of one partition. */
+    private static final class Setup {
+        private final LampSet lamp;
+        private final Calibrator calibrator;
+        private final LampMatcher.Prior prior;
+
+        Setup(CalibrationParameters p) {
+            DataContext data = Setups.context(p.dataFiles());
+            List<LineList> lists = new ArrayList<>();
+            for (String text : p.lamps()) {
+                lists.add(data.lampLines(Species.parse(text.strip())));
+            }
+            for (String set : p.lineSets()) {
+                lists.add(data.lineList(set));
+            }
+            LampSet all = LampSet.of(lists, Medium.parse(p.medium()));
+            this.lamp = p.minStrength() == null ? all : all.atLeast(StrengthClass.fromId(p.minStrength()));
+            this.calibrator = p.calibrator();
+            this.prior = p.prior();
+        }
+
+        Row calibrate(Fields f, Row row) {
+            String id = f.id(row);
+            double[] counts = f.doubles(row, id, 1, -1, Double.NEGATIVE_INFINITY, false);
+            double[] sigmas = f.optionalDoubles(row, id, 2, counts.length, 0, false);
+            int pixels = counts.length;
+            Calibration calibration;
+            try {
+                calibration = calibrator.calibrate(CalibrationProblem.builder(counts).sigmas(sigmas).lamp(lamp)
+                        .prior(prior).source(id).build());
+            } catch (RitzwerkException e) {
+                return RowFactory.create(id, pixels, null, null, null, null, null, null, null, null, null, null, null,
+                        null, null, null, null, null, null, null, null, null, null, e.code(), e.getMessage());
+            }
+            DispersionSolution solution = calibration.solution();
+            DispersionPolynomial polynomial = solution.polynomial();
+            double[][] c = polynomial.covariance();
+            double[] covariance = null;
+            if (c != null) {
+                int k = c.length;
+                covariance = new double[k * k];
+                for (int i = 0; i < k; i++) {
+                    System.arraycopy(c[i], 0, covariance, i * k, k);
+                }
+            }
+            return RowFactory.create(id, pixels, polynomial.medium().spec(), solution.degree(),
+                    polynomial.centrePixel(), polynomial.halfRange(), polynomial.coefficients(), covariance,
+                    polynomial.lowestPixel(), polynomial.highestPixel(), finite(solution.rmsNm()),
+                    finite(solution.rmsPixels()), finite(solution.reducedChiSquare()), solution.usedCount(),
+                    solution.rejectedCount(), calibration.peaks().size(), calibration.strongPeaks(),
+                    calibration.strongMatched(), finite(calibration.matchedFraction()), finite(calibration.coverage()),
+                    calibration.saturatedPeaks(), calibration.pairLabels().toArray(new String[0]), calibration.description(), null, null);
+        }
+
+        private static Double finite(double value) {
+            return Double.isFinite(value) ? value : null;
+        }
+    }
+
+    /** One partition of science spectra joined to their calibrations. */
+    private static final class ApplyTask implements MapPartitionsFunction<Row, Row> {
+        private static final long serialVersionUID = 1L;
+
+        @Override
+        public Iterator<Row> call(Iterator<Row> rows) {
+            return Setups.map(rows, ApplyTask::apply);
+        }
+
+        private static SparkRowException bad(String id, String field, String message) {
+            return new SparkRowException(SparkRowException.BAD_FIELD, id, field, message);
+        }
+
+        private static Row apply(Row row) {
+            if (row.isNullAt(0)) {
+                throw bad("null", "id", "the id is null");
+            }
+            String id = row.getString(0);
+            if (row.isNullAt(1)) {
+                throw bad(id, "calibration_id", "is null");
+            }
+            String calibrationId = row.getString(1);
+            if (row.isNullAt(2)) {
+                throw bad(id, "counts", "is null");
+            }
+            List<Object> counts = row.getList(2);
+            if (row.isNullAt(3)) {
+                throw bad(id, "calibration_id", "no calibration has the id '" + calibrationId + "'");
+            }
+            if (!row.isNullAt(12)) {
+                throw bad(id, "calibration_id", "calibration '" + calibrationId + "' was refused ("
+                        + row.getString(12) + ": " + row.getString(13) + "); there is nothing to apply");
+            }
+            int pixels = row.getInt(4);
+            if (counts.size() != pixels) {
+                throw bad(id, "counts", "has " + counts.size() + " pixels, but calibration '" + calibrationId
+                        + "' was made for " + pixels);
+            }
+            double[] coefficients = doubles(row.getList(8));
+            double[][] covariance = null;
+            if (!row.isNullAt(9)) {
+                double[] flat = doubles(row.getList(9));
+                int k = coefficients.length;
+                if (flat.length != k * k) {
+                    throw bad(id, "calibration_id", "calibration '" + calibrationId + "' has " + k
+                            + " coefficients but " + flat.length + " covariance elements, not " + k * k);
+                }
+                covariance = new double[k][k];
+                for (int i = 0; i < k; i++) {
+                    System.arraycopy(flat, i * k, covariance[i], 0, k);
+                }
+            }
+            Medium medium = Medium.parse(row.getString(5));
+            DispersionSolution solution;
+            try {
+                solution = DispersionSolution.of(new DispersionPolynomial(medium, row.getDouble(6), row.getDouble(7),
+                        coefficients, covariance, row.getDouble(10), row.getDouble(11)));
+            } catch (RuntimeException e) {
+                throw bad(id, "calibration_id", "calibration '" + calibrationId + "' is not a usable polynomial: "
+                        + e.getMessage());
+            }
+            double[] values = new double[pixels];
+            for (int i = 0; i < pixels; i++) {
+                Object value = counts.get(i);
+                if (value == null) {
+                    throw bad(id, "counts", "element " + i + " is null");
+                }
+                values[i] = (Double) value;
+            }
+            return RowFactory.create(id, calibrationId, values, solution.pixelCentreWavelengths(pixels),
+                    solution.pixelCentreWavelengthSigmas(pixels), medium.spec());
+        }
+
+        private static double[] doubles(List<Object> list) {
+            double[] values = new double[list.size()];
+            for (int i = 0; i < values.length; i++) {
+                values[i] = (Double) list.get(i);
+            }
+            return values;
+        }
+    }
+}

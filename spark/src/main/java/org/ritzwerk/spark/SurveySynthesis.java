@@ -1,0 +1,192 @@
+package org.ritzwerk.spark;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.Iterator;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import org.apache.spark.api.java.JavaSparkContext;
+import org.apache.spark.api.java.function.MapPartitionsFunction;
+import org.apache.spark.broadcast.Broadcast;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Encoders;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Renderer;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.engine.synth.SceneException;
+import org.ritzwerk.engine.synth.SyntheticSpectrum;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * Synthetic spectra in bulk on Spark: for every row of a {@link Schemas#SCENES} table, exactly
+ * the library's {@code Scene.builder(grid)...build().render(1)} as the {@code synth} command
+ * composes it (one-electron ions first, then alkali atoms, each with its abundance; temperature,
+ * electron density, velocity, resolving power and the row's own noise seed), giving one
+ * {@link Schemas#SPECTRA} row with the counts, the expected counts and the true lines.
+ *
+ * <p>The parameters are broadcast once; each partition makes the data context once and each
+ * species' level model at its first use. The result of a row depends on that row alone (its
+ * seed), so it is the same on any partitioning and any number of cores. A malformed row fails
+ * the job with a {@link SparkRowException} naming the row's id and field; a scene the engine
+ * refuses (no line carries light in the grid) gets its code and message in {@code failure_code}
+ * and {@code failure}.
+ *
+ * <p>Immutable and thread-safe; the operation is a lazy transformation.
+ */
+public final class SurveySynthesis {
+
+    private final SynthesisParameters parameters;
+
+    private SurveySynthesis(SynthesisParameters parameters) {
+        this.parameters = Objects.requireNonNull(parameters, "parameters");
+    }
+
+    /**
+     * @param parameters the grid and the settings shared by every scene
+     * @return the operation
+     */
+    public static SurveySynthesis of(SynthesisParameters parameters) {
+        return new SurveySynthesis(parameters);
+    }
+
+    /** @return the parameters */
+    public SynthesisParameters parameters() {
+        return parameters;
+    }
+
+    /**
+     * @param scenes a table with the columns of {@link Schemas#SCENES}
+     * @return one spectrum per scene, {@link Schemas#SPECTRA} (lazy)
+     * @throws SparkRowException when a column is missing or has another type
+     */
+    public Dataset<Row> synthesise(Dataset<Row> scenes) {
+        Fields fields = Fields.of(scenes.schema(), Schemas.SCENES, "scene");
+        Broadcast<SynthesisParameters> shared = JavaSparkContext
+                .fromSparkContext(scenes.sparkSession().sparkContext()).broadcast(parameters);
+        return scenes.mapPartitions(new Task(shared, fields), Encoders.row(Schemas.SPECTRA));
+    }
+
+    private static final class Task implements MapPartitionsFunction<Row, Row> {
+        private static final long serialVersionUID = 1L;
+        private final Broadcast<SynthesisParameters> shared;
+        private final Fields fields;
+
+        Task(Broadcast<SynthesisParameters> shared, Fields fields) {
+            this.shared = shared;
+            this.fields = fields;
+        }
+
+        @Override
+        public Iterator<Row> call(Iterator<Row> rows) {
+            if (!rows.hasNext()) {
+                return rows;
+            }
+            Setup setup = new Setup(shared.value());
+            return Setups.map(rows, row -> setup.synthesise(fields, row));
+        }
+    }
+
+    /** The data context, grid and species models of one partition. Not thread-safe (one task). */
+    private static final class Setup {
+        private final SynthesisParameters p;
+        private final DataContext data;
+        private final PixelGrid grid;
+        private final Medium medium;
+        private final Renderer renderer;
+        private final Map<String, Setups.Atoms> species = new HashMap<>();
+
+        Setup(SynthesisParameters p) {
+            this.p = p;
+            this.data = Setups.context(p.dataFiles());
+            this.grid = p.grid();
+            this.medium = Medium.parse(p.medium());
+            this.renderer = p.rendererChoice();
+        }
+
+        /** The species' model, made at its first use in this partition. */
+        private Setups.Atoms atoms(String id, String text) {
+            Setups.Atoms atoms = species.get(text);
+            if (atoms == null) {
+                try {
+                    atoms = Setups.atoms(data, List.of(text), p.model());
+                } catch (RuntimeException e) {
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "species", e.getMessage());
+                }
+                species.put(text, atoms);
+            }
+            return atoms;
+        }
+
+        Row synthesise(Fields f, Row row) {
+            String id = f.id(row);
+            String[] names = f.strings(row, id, 1);
+            double[] abundances = f.optionalDoubles(row, id, 2, names.length, 0, true);
+            double temperature = f.number(row, id, 3);
+            double density = f.optionalNumber(row, id, 4);
+            double velocity = f.number(row, id, 5);
+            double resolvingPower = f.number(row, id, 6);
+            long seed = f.whole(row, id, 7);
+            if (!(temperature > 0)) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "temperature_k", "is " + temperature
+                        + "; it must be above 0 K");
+            }
+            if (!Double.isNaN(density) && !(density > 0)) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "electron_density_m3", "is " + density
+                        + "; it must be above 0 per cubic metre, or null");
+            }
+            if (!(Math.abs(velocity) < PhysicalConstants.C / 10)) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "velocity_m_s", "is " + velocity
+                        + "; its magnitude must be below a tenth of the speed of light");
+            }
+            if (!(resolvingPower > 0)) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "resolving_power", "is "
+                        + resolvingPower + "; it must be above 0");
+            }
+            Scene.Builder builder;
+            try {
+                builder = Scene.builder(grid).medium(medium).instrument(Instrument.ofResolvingPower(resolvingPower))
+                        .naturalWidths(false).renderer(renderer).temperature(temperature).nMax(p.nMax())
+                        .velocity(velocity).peakCounts(p.peakCounts());
+                if (!Double.isNaN(density)) {
+                    builder.electronDensity(density);
+                }
+            } catch (IllegalArgumentException e) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "scene", e.getMessage());
+            }
+            // The command line's order: one-electron ions first, then alkali atoms.
+            for (int k = 0; k < names.length; k++) {
+                for (Setups.Ion ion : atoms(id, names[k]).ions()) {
+                    builder.hydrogenLike(ion.species(), ion.model(), abundances == null ? 1.0 : abundances[k]);
+                }
+            }
+            for (int k = 0; k < names.length; k++) {
+                for (AlkaliAtom atom : atoms(id, names[k]).alkalis()) {
+                    builder.alkali(atom, abundances == null ? 1.0 : abundances[k], data.nucleus(atom.species()));
+                }
+            }
+            if (!Double.isNaN(p.readNoise())) {
+                builder.noise(p.readNoise(), seed);
+            }
+            SyntheticSpectrum spectrum;
+            try {
+                spectrum = builder.build().render(1);
+            } catch (SceneException e) {
+                return RowFactory.create(id, null, null, null, e.code(), e.getMessage());
+            }
+            Scene.Lines lines = spectrum.lines();
+            List<Row> truth = new ArrayList<>(lines.size());
+            for (int i = 0; i < lines.size(); i++) {
+                truth.add(RowFactory.create(lines.label(i), lines.position(i), lines.photons(i), lines.gaussianFwhm(i),
+                        lines.lorentzFwhm(i), spectrum.lineCounts(i)));
+            }
+            return RowFactory.create(id, spectrum.counts(), spectrum.expectedCounts(), truth.toArray(new Row[0]), null, null);
+        }
+    }
+}

@@ -1,0 +1,173 @@
+package org.ritzwerk.spark;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.SparkSession;
+import org.apache.spark.sql.functions;
+import org.openjdk.jmh.annotations.Benchmark;
+import org.openjdk.jmh.annotations.BenchmarkMode;
+import org.openjdk.jmh.annotations.Fork;
+import org.openjdk.jmh.annotations.Level;
+import org.openjdk.jmh.annotations.Measurement;
+import org.openjdk.jmh.annotations.Mode;
+import org.openjdk.jmh.annotations.OutputTimeUnit;
+import org.openjdk.jmh.annotations.Param;
+import org.openjdk.jmh.annotations.Scope;
+import org.openjdk.jmh.annotations.Setup;
+import org.openjdk.jmh.annotations.State;
+import org.openjdk.jmh.annotations.TearDown;
+import org.openjdk.jmh.annotations.Warmup;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.identify.Candidates;
+import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.IdentificationSearch;
+import org.ritzwerk.engine.identify.Identifier;
+import org.ritzwerk.engine.identify.LineCatalog;
+import org.ritzwerk.engine.identify.PeakList;
+import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Renderer;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * Throughput of the Spark operations in local mode on 1 and 2 cores against the plain library on
+ * one thread over the same data, in one run: identification of {@code lists} peak lists of
+ * {@code peaks} peaks (H I and He II multiplets, n up to 30, 360 to 710 nm, 5 sigma) and synthesis
+ * of {@code scenes} spectra (H I, 2000 pixels, per-row seeds). Each measurement is one pass over
+ * the whole table (single-shot time); the inputs are cached in Spark before the measurement, so it
+ * times the operation, not the making of the table. Per-core overhead = Spark local[1] / library;
+ * scaling = local[1] / local[2].
+ *
+ * <p>Not a test; run it with {@code spark/benchmark} (see that script). Spark needs the JVM
+ * options of the module's surefire configuration, given to the forks here.
+ */
+@State(Scope.Benchmark)
+@BenchmarkMode(Mode.SingleShotTime)
+@OutputTimeUnit(TimeUnit.MILLISECONDS)
+@Warmup(iterations = 2)
+@Measurement(iterations = 4)
+@Fork(value = 1, jvmArgsAppend = {"-Xmx4g", "-XX:+IgnoreUnrecognizedVMOptions",
+    "--add-opens=java.base/java.lang=ALL-UNNAMED", "--add-opens=java.base/java.lang.invoke=ALL-UNNAMED",
+    "--add-opens=java.base/java.lang.reflect=ALL-UNNAMED", "--add-opens=java.base/java.io=ALL-UNNAMED",
+    "--add-opens=java.base/java.net=ALL-UNNAMED", "--add-opens=java.base/java.nio=ALL-UNNAMED",
+    "--add-opens=java.base/java.util=ALL-UNNAMED", "--add-opens=java.base/java.util.concurrent=ALL-UNNAMED",
+    "--add-opens=java.base/java.util.concurrent.atomic=ALL-UNNAMED",
+    "--add-opens=java.base/jdk.internal.ref=ALL-UNNAMED", "--add-opens=java.base/sun.nio.ch=ALL-UNNAMED",
+    "--add-opens=java.base/sun.nio.cs=ALL-UNNAMED", "--add-opens=java.base/sun.security.action=ALL-UNNAMED",
+    "--add-opens=java.base/sun.util.calendar=ALL-UNNAMED", "-Djdk.reflect.useDirectMethodHandle=false",
+    "-Dio.netty.tryReflectionSetAccessible=true"})
+public class SparkThroughputBenchmark {
+
+    /** Spark's master: local[1] or local[2]. */
+    @Param({"1", "2"})
+    public int cores;
+
+    /** Peak lists per pass. */
+    @Param({"20000"})
+    public int lists;
+
+    /** Peaks per list (45 drawn from the lines, 5 spurious). */
+    @Param({"50"})
+    public int peaks;
+
+    /** Scenes per pass. */
+    @Param({"400"})
+    public int scenes;
+
+    private SparkSession spark;
+    private List<Fixtures.PeakListData> peakLists;
+    private Dataset<Row> peakTable;
+    private Dataset<Row> sceneTable;
+    private LineCatalog catalog;
+    private IdentificationSearch search;
+    private DataContext data;
+    private SurveyIdentification identification;
+    private SurveySynthesis synthesis;
+
+    @Setup(Level.Trial)
+    public void setUp() {
+        spark = SparkSession.builder().master("local[" + cores + "]").appName("ritzwerk-benchmark")
+                .config("spark.ui.enabled", "false").config("spark.driver.host", "127.0.0.1")
+                .config("spark.driver.bindAddress", "127.0.0.1").config("spark.sql.shuffle.partitions", "4")
+                .getOrCreate();
+        spark.sparkContext().setLogLevel("WARN");
+        List<String> species = List.of("H I", "He II");
+        peakLists = Fixtures.peakLists(species, lists, peaks - 5, 5, 2026L);
+        // Two partitions per core: each partition pays its setup (data context, catalogue) once per pass.
+        peakTable = Fixtures.peakListTable(spark, peakLists, 2 * cores).cache();
+        peakTable.count();
+        List<Row> sceneRows = new ArrayList<>(scenes);
+        for (int k = 0; k < scenes; k++) {
+            sceneRows.add(RowFactory.create("scene-" + k, new String[] {"H I"}, null, 6000.0 + 10 * k, null,
+                    (k % 100 - 50) * 1e3, 8000.0, (long) k));
+        }
+        sceneTable = spark.createDataFrame(sceneRows, Schemas.SCENES).repartition(2 * cores).cache();
+        sceneTable.count();
+        data = DataContext.discoverDefault();
+        Candidates.Builder builder = Candidates.inWindow(360e-9, 710e-9);
+        for (String text : species) {
+            Species s = Species.parse(text);
+            builder.hydrogenLike(s, HydrogenLikeModel.of(data.nucleus(s), Tier.QED), 30, false);
+        }
+        catalog = builder.build().catalog();
+        search = IdentificationSearch.of(Identifier.of(Tolerance.parse("5 sigma")));
+        identification = SurveyIdentification.of(IdentificationParameters.inWindow(species, List.of(), 360, 710));
+        synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 2000).withModel("qed", 30));
+    }
+
+    @TearDown(Level.Trial)
+    public void tearDown() {
+        spark.stop();
+    }
+
+    /** Baseline: the library on one thread, one peak list after another. */
+    @Benchmark
+    public long identifyLibrary() {
+        long matched = 0;
+        for (Fixtures.PeakListData list : peakLists) {
+            PeakList p = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
+            matched += search.run(p, catalog).identification().count(Identification.MATCHED);
+        }
+        return matched;
+    }
+
+    /** The Spark operation over the cached table, every row identified. */
+    @Benchmark
+    public long identifySpark() {
+        return identification.identify(peakTable).spectra().agg(functions.sum("matched")).first().getLong(0);
+    }
+
+    /** Baseline: the library on one thread, one scene after another. */
+    @Benchmark
+    public double synthesiseLibrary() {
+        double total = 0;
+        PixelGrid grid = PixelGrid.linear(640, 670, 2000);
+        Species h = Species.parse("H I");
+        HydrogenLikeModel model = HydrogenLikeModel.of(data.nucleus(h), Tier.QED);
+        for (int k = 0; k < scenes; k++) {
+            double[] counts = Scene.builder(grid).medium(Medium.air()).instrument(Instrument.ofResolvingPower(8000))
+                    .naturalWidths(false).renderer(Renderer.AUTO).temperature(6000.0 + 10 * k).nMax(30)
+                    .velocity((k % 100 - 50) * 1e3).peakCounts(10_000).hydrogenLike(h, model, 1.0).noise(0, k)
+                    .build().render(1).counts();
+            total += counts[counts.length / 2];
+        }
+        return total;
+    }
+
+    /** The Spark operation over the cached scenes, every spectrum rendered. */
+    @Benchmark
+    public double synthesiseSpark() {
+        return synthesis.synthesise(sceneTable).agg(functions.sum(functions.element_at(functions.col("counts"),
+                1001))).first().getDouble(0);
+    }
+}

@@ -1,0 +1,169 @@
+package org.ritzwerk.spark;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.SparkSession;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.calibrate.Calibration;
+import org.ritzwerk.engine.calibrate.CalibrationException;
+import org.ritzwerk.engine.calibrate.CalibrationProblem;
+import org.ritzwerk.engine.calibrate.Calibrator;
+import org.ritzwerk.engine.calibrate.DispersionSolution;
+import org.ritzwerk.engine.calibrate.LampSet;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.CalibrationFiles;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * Calibration on Spark (local[2]) against the library called directly: the calibrator's solution
+ * and quality figures bit for bit, a refused exposure reported in its row, and applying the
+ * calibrations bit for bit equal to applying a saved calibration file (what {@code calibrate
+ * --apply} does); refusals of malformed rows name the row id and field.
+ */
+class SurveyCalibrationTest {
+
+    @Test
+    void calibrationsAndTheirApplicationAreTheLibrarysBitForBit(@TempDir Path folder) throws Exception {
+        SparkSession spark = LocalSpark.session();
+        DataContext data = DataContext.builtIn();
+        Map<String, double[]> exposures = new HashMap<>();
+        exposures.put("lamp-1", Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.0, 9L));
+        exposures.put("lamp-2", Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.02, 11L));
+        exposures.put("lamp-3", Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 0.98, 12L));
+        double[] flat = new double[Fixtures.PIXELS];
+        java.util.Arrays.fill(flat, 100);
+        exposures.put("dark", flat);
+        List<Row> rows = new ArrayList<>();
+        exposures.forEach((id, counts) -> rows.add(RowFactory.create(id, counts, null)));
+        Dataset<Row> table = spark.createDataFrame(rows, Schemas.EXPOSURES).repartition(2);
+
+        Dataset<Row> calibrations = SurveyCalibration.of(CalibrationParameters.of(List.of("Ne I"), List.of()))
+                .calibrate(table).cache();
+        List<Row> out = calibrations.collectAsList();
+        assertEquals(4, out.size());
+
+        LampSet neon = LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
+        Map<String, DispersionSolution> saved = new HashMap<>();
+        for (Row row : out) {
+            String id = row.getString(0);
+            double[] counts = exposures.get(id);
+            assertEquals(counts.length, row.getInt(1));
+            if (id.equals("dark")) {
+                CalibrationException refused = org.junit.jupiter.api.Assertions.assertThrows(
+                        CalibrationException.class, () -> Calibrator.defaults().calibrate(
+                                CalibrationProblem.builder(counts).lamp(neon).source(id).build()));
+                assertEquals(refused.code(), row.getAs("failure_code"));
+                assertEquals(refused.getMessage(), row.getAs("failure"));
+                assertTrue(row.isNullAt(3), "no degree for a refused exposure");
+                continue;
+            }
+            Calibration c = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts).lamp(neon).source(id)
+                    .build());
+            DispersionSolution s = c.solution();
+            assertNull(row.getAs("failure"), id);
+            assertEquals(s.medium().spec(), row.getString(2));
+            assertEquals(s.degree(), row.getInt(3));
+            assertEquals(s.centrePixel(), row.getDouble(4));
+            assertEquals(s.halfRange(), row.getDouble(5));
+            assertArrayEquals(s.polynomial().coefficients(), doubles(row.getList(6)), id);
+            double[][] covariance = s.polynomial().covariance();
+            List<Double> flatCovariance = row.getList(7);
+            for (int i = 0; i < covariance.length; i++) {
+                for (int j = 0; j < covariance.length; j++) {
+                    assertEquals(covariance[i][j], flatCovariance.get(i * covariance.length + j));
+                }
+            }
+            assertEquals(s.lowestPixel(), row.getDouble(8));
+            assertEquals(s.highestPixel(), row.getDouble(9));
+            assertEquals(s.rmsNm(), row.getDouble(10));
+            assertEquals(s.rmsPixels(), row.getDouble(11));
+            assertEquals(s.reducedChiSquare(), row.getDouble(12));
+            assertEquals(s.usedCount(), row.getInt(13));
+            assertEquals(s.rejectedCount(), row.getInt(14));
+            assertEquals(c.peaks().size(), row.getInt(15));
+            assertEquals(c.strongPeaks(), row.getInt(16));
+            assertEquals(c.strongMatched(), row.getInt(17));
+            assertEquals(c.matchedFraction(), row.getDouble(18));
+            assertEquals(c.coverage(), row.getDouble(19));
+            assertEquals(c.saturatedPeaks(), row.getInt(20));
+            assertEquals(c.pairLabels(), row.getList(21));
+            assertEquals(c.description(), row.getString(22));
+            // The saved-file path of the README: write, read, apply.
+            Path file = folder.resolve(id + ".json");
+            CalibrationFiles.write(file, s, counts.length, c.description(), c.pairLabels());
+            saved.put(id, CalibrationFiles.read(file).solution());
+        }
+
+        List<Row> science = new ArrayList<>();
+        science.add(RowFactory.create("star-a", "lamp-1", Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")),
+                1.0, 21L)));
+        science.add(RowFactory.create("star-b", "lamp-2", flat));
+        science.add(RowFactory.create("star-c", "lamp-3", flat));
+        List<Row> applied = SurveyCalibration.apply(spark.createDataFrame(science, Schemas.SCIENCE), calibrations)
+                .collectAsList();
+        assertEquals(3, applied.size());
+        for (Row row : applied) {
+            DispersionSolution s = saved.get(row.getString(1));
+            assertArrayEquals(s.pixelCentreWavelengths(Fixtures.PIXELS), doubles(row.getList(3)), row.getString(0));
+            assertArrayEquals(s.pixelCentreWavelengthSigmas(Fixtures.PIXELS), doubles(row.getList(4)));
+            assertEquals(s.medium().spec(), row.getString(5));
+        }
+
+        // Applying a refused or a missing calibration, or one made for another pixel count, names the spectrum.
+        List<Row> bad = List.of(RowFactory.create("star-d", "dark", flat));
+        String message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(
+                spark.createDataFrame(bad, Schemas.SCIENCE), calibrations).count());
+        assertTrue(message.startsWith("row 'star-d', field 'calibration_id': calibration 'dark' was refused ("),
+                message);
+        List<Row> missing = List.of(RowFactory.create("star-e", "lamp-9", flat));
+        message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(
+                spark.createDataFrame(missing, Schemas.SCIENCE), calibrations).count());
+        assertEquals("row 'star-e', field 'calibration_id': no calibration has the id 'lamp-9'", message);
+        List<Row> shorter = List.of(RowFactory.create("star-f", "lamp-1", new double[100]));
+        message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(
+                spark.createDataFrame(shorter, Schemas.SCIENCE), calibrations).count());
+        assertEquals("row 'star-f', field 'counts': has 100 pixels, but calibration 'lamp-1' was made for 2048",
+                message);
+        calibrations.unpersist();
+    }
+
+    @Test
+    void aMalformedExposureFailsTheJobNamingItsIdAndField() {
+        SparkSession spark = LocalSpark.session();
+        SurveyCalibration job = SurveyCalibration.of(CalibrationParameters.of(List.of("Ne I"), List.of()));
+        List<Row> rows = List.of(RowFactory.create("exp-17", new double[] {1, 2, Double.POSITIVE_INFINITY}, null));
+        String message = SurveyIdentificationTest.failure(() -> job.calibrate(
+                spark.createDataFrame(rows, Schemas.EXPOSURES)).count());
+        assertTrue(message.startsWith("row 'exp-17', field 'counts': element 2 is Infinity"), message);
+        // Tables read from files have nullable columns; a null where counts are required is refused.
+        org.apache.spark.sql.types.StructType nullable = new org.apache.spark.sql.types.StructType()
+                .add("id", org.apache.spark.sql.types.DataTypes.StringType, true)
+                .add("counts", org.apache.spark.sql.types.DataTypes.createArrayType(
+                        org.apache.spark.sql.types.DataTypes.DoubleType, true), true);
+        List<Row> noCounts = List.of(RowFactory.create("exp-18", null));
+        message = SurveyIdentificationTest.failure(() -> job.calibrate(spark.createDataFrame(noCounts, nullable))
+                .count());
+        assertEquals("row 'exp-18', field 'counts': is null", message);
+    }
+
+    private static double[] doubles(List<Double> list) {
+        double[] values = new double[list.size()];
+        for (int i = 0; i < values.length; i++) {
+            values[i] = list.get(i);
+        }
+        return values;
+    }
+}

@@ -1,0 +1,266 @@
+package org.ritzwerk.spark;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.SparkSession;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.convert.SpectralArrays;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.identify.Candidates;
+import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.IdentificationSearch;
+import org.ritzwerk.engine.identify.Identifier;
+import org.ritzwerk.engine.identify.LineCatalog;
+import org.ritzwerk.engine.identify.PeakList;
+import org.ritzwerk.engine.identify.ShiftSearch;
+import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.engine.plasma.PlasmaEstimate;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * Identification on Spark (local[2]) against the library called directly on the same peak lists:
+ * every number equal bit for bit (JUnit's assertEquals on doubles compares exactly), with a fixed
+ * survey window and with the identify command's window per spectrum; and the refusals of bad rows.
+ */
+class SurveyIdentificationTest {
+
+    private static final List<String> SPECIES = List.of("H I", "He II");
+    private static final List<String> HYDROGEN = List.of("H I");
+
+    /** The library as the identify command composes it: candidates, search, plasma estimate. */
+    private static final class Library {
+        final List<String> species;
+        final boolean plasma;
+        final DataContext data = DataContext.discoverDefault();
+
+        Library(List<String> species, boolean plasma) {
+            this.species = species;
+            this.plasma = plasma;
+        }
+
+        final IdentificationSearch search = IdentificationSearch.of(Identifier.of(Tolerance.parse("5 sigma")))
+                .withVelocitySearch(100e3);
+        final PlasmaEstimate estimate = PlasmaEstimate.defaults().withInstrumentFwhm(0.05);
+
+        Candidates candidates(double lo, double hi) {
+            Candidates.Builder builder = Candidates.inWindow(lo, hi);
+            for (String s : this.species) {
+                Species species = Species.parse(s);
+                builder.hydrogenLike(species, HydrogenLikeModel.of(data.nucleus(species), Tier.QED), 30, false);
+            }
+            return builder.build();
+        }
+    }
+
+    @Test
+    void fixedWindowGivesTheLibrarysNumbersBitForBit() {
+        SparkSession spark = LocalSpark.session();
+        List<Fixtures.PeakListData> lists = Fixtures.peakLists(SPECIES, 12, 20, 3, 18L);
+        IdentificationParameters parameters = IdentificationParameters.inWindow(SPECIES, List.of(), 360, 710)
+                .withVelocitySearch(100e3);
+        List<Row> rows = SurveyIdentification.of(parameters).identify(Fixtures.peakListTable(spark, lists, 3))
+                .spectra().collectAsList();
+        assertEquals(lists.size(), rows.size());
+        Library library = new Library(SPECIES, false);
+        Candidates candidates = library.candidates(360e-9, 710e-9);
+        Map<String, Fixtures.PeakListData> byId = new HashMap<>();
+        lists.forEach(l -> byId.put(l.id(), l));
+        int matched = 0;
+        for (Row row : rows) {
+            Fixtures.PeakListData list = byId.get(row.getString(0));
+            matched += compare(library, candidates, list, row);
+        }
+        assertTrue(matched > 12 * 15, "most peaks drawn from the lines match: " + matched);
+    }
+
+    @Test
+    void windowPerSpectrumIsTheIdentifyCommandsComposition() {
+        SparkSession spark = LocalSpark.session();
+        List<Fixtures.PeakListData> lists = Fixtures.peakLists(HYDROGEN, 4, 8, 1, 19L);
+        IdentificationParameters parameters = IdentificationParameters.perSpectrumWindow(HYDROGEN, List.of())
+                .withVelocitySearch(100e3).withPlasmaEstimate(0.05);
+        SurveyIdentification.Result result = SurveyIdentification.of(parameters)
+                .identify(Fixtures.peakListTable(spark, lists, 2));
+        Library library = new Library(HYDROGEN, true);
+        for (Row row : result.spectra().collectAsList()) {
+            Fixtures.PeakListData list = lists.stream().filter(l -> l.id().equals(row.getString(0))).findFirst()
+                    .orElseThrow();
+            PeakList peaks = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
+            double[] window = library.search.candidateWindow(peaks);
+            compare(library, library.candidates(window[0], window[1]), list, row);
+        }
+        // The per-peak table is the spectra's peaks with their spectrum's id.
+        List<Row> peaks = result.peaks().collectAsList();
+        assertEquals(lists.stream().mapToInt(l -> l.nm().length).sum(), peaks.size());
+        assertEquals(Schemas.IDENTIFIED_PEAKS.simpleString(), result.peaks().schema().simpleString());
+    }
+
+    /** @return the matched peaks */
+    private static int compare(Library library, Candidates candidates, Fixtures.PeakListData list, Row row) {
+        PeakList peaks = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
+        IdentificationSearch.Report report = library.search.run(peaks, candidates.catalog());
+        Identification id = report.identification();
+        LineCatalog lines = report.lines();
+        String where = list.id();
+        assertNull(row.getAs("failure"), where);
+        List<Row> peakRows = row.getList(1);
+        assertEquals(list.nm().length, peakRows.size(), where);
+        for (int i = 0; i < peakRows.size(); i++) {
+            Row p = peakRows.get(i);
+            assertEquals(i, p.getInt(0));
+            assertEquals(list.nm()[i], p.getDouble(1), where);
+            int j = id.line(i);
+            String status = id.status(i) == Identification.MATCHED ? "matched"
+                    : id.status(i) == Identification.AMBIGUOUS ? "ambiguous" : "unexplained";
+            assertEquals(status, p.getString(2), where + " peak " + i);
+            if (j < 0) {
+                assertTrue(p.isNullAt(3) && p.isNullAt(5) && p.isNullAt(7), where + " peak " + i);
+                continue;
+            }
+            double[] line = new double[1];
+            SpectralArrays.convert(new double[] {lines.wavelength(j)}, Unit.METRE, Medium.vacuum(), Unit.NANOMETRE,
+                    Medium.vacuum(), line);
+            assertEquals(lines.species(j).notation(), p.getString(3));
+            assertEquals(lines.label(j), p.getString(4));
+            assertEquals(line[0], p.getDouble(5), where + " peak " + i);
+            assertEquals(list.nm()[i] - line[0], p.getDouble(6));
+            assertEquals(id.normalizedResidual(i), p.getDouble(7));
+        }
+        assertEquals(id.count(Identification.MATCHED), row.getInt(2));
+        assertEquals(id.count(Identification.AMBIGUOUS), row.getInt(3));
+        assertEquals(id.count(Identification.UNEXPLAINED), row.getInt(4));
+        ShiftSearch.Fit v = report.velocity().orElseThrow();
+        assertEquals(v.velocity(), row.getDouble(5), where);
+        assertEquals(v.velocityUncertainty(), row.getDouble(6), where);
+        assertEquals(v.matches(), row.getInt(7));
+        assertTrue(row.isNullAt(8) && row.isNullAt(9) && row.isNullAt(10), "no offset searched");
+        List<String> missing = new ArrayList<>();
+        for (int j : id.missingStrongLines()) {
+            missing.add(lines.species(j).notation() + " " + lines.label(j));
+        }
+        assertEquals(missing, row.getList(11));
+        List<Row> presence = row.getList(12);
+        List<Identification.SpeciesPresence> expected = id.speciesPresence();
+        assertEquals(expected.size(), presence.size());
+        for (int k = 0; k < expected.size(); k++) {
+            Identification.SpeciesPresence e = expected.get(k);
+            Row r = presence.get(k);
+            assertEquals(e.species().notation(), r.getString(0));
+            assertEquals(e.matched(), r.getInt(1));
+            assertEquals(e.matchedByChance(), r.getDouble(2));
+            assertEquals(e.strongInRange(), r.getInt(3));
+            assertEquals(e.strongMatched(), r.getInt(4));
+            assertEquals(e.strongByChance(), r.getDouble(5));
+            assertEquals(e.chanceProbability(), r.isNullAt(6) ? Double.NaN : r.getDouble(6));
+            assertEquals(e.presence(), r.isNullAt(7) ? Double.NaN : r.getDouble(7));
+        }
+        if (!library.plasma) {
+            assertTrue(row.isNullAt(13), "no plasma estimate asked for");
+            return id.count(Identification.MATCHED);
+        }
+        List<PlasmaEstimate.Row> plasma = library.estimate.estimate(new PlasmaEstimate.Peaks(list.nm(), Unit.NANOMETRE,
+                Medium.vacuum(), list.photons(), list.width()), id, lines, candidates);
+        List<Row> plasmaRows = row.getList(13);
+        assertEquals(plasma.size(), plasmaRows.size(), where);
+        for (int k = 0; k < plasma.size(); k++) {
+            PlasmaEstimate.Row e = plasma.get(k);
+            Row r = plasmaRows.get(k);
+            assertEquals(e.species().notation(), r.getString(0));
+            assertEquals(e.quantity().id(), r.getString(1));
+            assertEquals(e.value().isPresent() ? e.value().getAsDouble() : Double.NaN,
+                    r.isNullAt(2) ? Double.NaN : r.getDouble(2));
+            assertEquals(e.uncertainty().isPresent() ? e.uncertainty().getAsDouble() : Double.NaN,
+                    r.isNullAt(3) ? Double.NaN : r.getDouble(3));
+            assertEquals(e.note(), r.getString(6));
+        }
+        return id.count(Identification.MATCHED);
+    }
+
+    @Test
+    void onePeakPerRowGroupsIntoTheSamePeakLists() {
+        SparkSession spark = LocalSpark.session();
+        List<Fixtures.PeakListData> lists = Fixtures.peakLists(SPECIES, 3, 6, 1, 20L);
+        List<Row> perPeak = new ArrayList<>();
+        for (Fixtures.PeakListData list : lists) {
+            for (int i = list.nm().length - 1; i >= 0; i--) { // out of order on purpose
+                perPeak.add(RowFactory.create(list.id(), i, list.nm()[i], list.sigma()[i], list.photons()[i],
+                        i == 0 && list.id().equals("spectrum-1") ? null : list.width()[i]));
+            }
+        }
+        Dataset<Row> grouped = SurveyIdentification.peakLists(spark.createDataFrame(perPeak, Schemas.PEAK_ROWS));
+        for (Row row : grouped.collectAsList()) {
+            Fixtures.PeakListData list = lists.stream().filter(l -> l.id().equals(row.getString(0))).findFirst()
+                    .orElseThrow();
+            assertEquals(toList(list.nm()), row.getList(1));
+            assertEquals(toList(list.sigma()), row.getList(2));
+            assertEquals(toList(list.photons()), row.getList(3));
+            if (list.id().equals("spectrum-1")) {
+                assertTrue(row.isNullAt(4), "one peak without a width: the spectrum has no widths");
+            } else {
+                assertEquals(toList(list.width()), row.getList(4));
+            }
+        }
+    }
+
+    private static List<Double> toList(double[] values) {
+        List<Double> list = new ArrayList<>();
+        for (double v : values) {
+            list.add(v);
+        }
+        return list;
+    }
+
+    @Test
+    void aMalformedRowFailsTheJobNamingItsIdAndField() {
+        SparkSession spark = LocalSpark.session();
+        SurveyIdentification job = SurveyIdentification.of(IdentificationParameters.inWindow(SPECIES, List.of(), 360,
+                710));
+        List<Row> rows = new ArrayList<>();
+        rows.add(RowFactory.create("good", new double[] {486.1, 656.4}, new double[] {1e-3, 1e-3}, null, null));
+        rows.add(RowFactory.create("bad", new double[] {486.1, Double.NaN}, new double[] {1e-3, 1e-3}, null, null));
+        String message = failure(() -> job.identify(spark.createDataFrame(rows, Schemas.PEAK_LISTS)).spectra()
+                .collectAsList());
+        assertTrue(message.contains("row 'bad', field 'positions': element 1 is NaN"), message);
+
+        List<Row> unequal = List.of(RowFactory.create("short", new double[] {486.1, 656.4}, new double[] {1e-3},
+                null, null));
+        message = failure(() -> job.identify(spark.createDataFrame(unequal, Schemas.PEAK_LISTS)).spectra().count());
+        assertTrue(message.contains("row 'short', field 'sigmas': has 1 elements, but positions has 2"), message);
+
+        List<Row> noSigmas = List.of(RowFactory.create("plain", new double[] {486.1}, null, null, null));
+        message = failure(() -> job.identify(spark.createDataFrame(noSigmas, Schemas.PEAK_LISTS)).spectra().count());
+        assertTrue(message.contains("row 'plain', field 'sigmas': is null, but the tolerance '5 sigma'"), message);
+
+        // A table without the positions column is refused on the driver, before any task.
+        SparkRowException schema = assertThrows(SparkRowException.class, () -> job.identify(
+                spark.createDataFrame(rows, Schemas.PEAK_LISTS).drop("positions")));
+        assertEquals(SparkRowException.BAD_SCHEMA, schema.code());
+        assertTrue(schema.getMessage().startsWith("field 'positions': the peak-list table has no such column"),
+                schema.getMessage());
+    }
+
+    /** @return the message of the SparkRowException that failed the job */
+    static String failure(Runnable job) {
+        Throwable thrown = assertThrows(Exception.class, job::run);
+        for (Throwable t = thrown; t != null; t = t.getCause()) {
+            if (t instanceof SparkRowException) {
+                return t.getMessage();
+            }
+        }
+        return String.valueOf(thrown.getMessage());
+    }
+}

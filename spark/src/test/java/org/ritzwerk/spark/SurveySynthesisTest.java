@@ -1,0 +1,144 @@
+package org.ritzwerk.spark;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.SparkSession;
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Renderer;
+import org.ritzwerk.engine.synth.Scene;
+import org.ritzwerk.engine.synth.SyntheticSpectrum;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * Synthesis on Spark (local[2]) against the library's scenes built directly with the same
+ * parameters: counts with noise from each row's seed, expected counts and the true lines, bit for
+ * bit; a scene without light reported in its row; malformed rows refused naming id and field.
+ */
+class SurveySynthesisTest {
+
+    private static final SynthesisParameters GRID = SynthesisParameters.linear(640, 670, 1500).withModel("qed", 12)
+            .withCounts(5000, 3);
+
+    /** The library as the synth command composes one scene (ions first, then alkali atoms). */
+    private static SyntheticSpectrum library(DataContext data, String[] species, double[] abundances, double kelvin,
+            Double density, double velocity, double resolvingPower, long seed) {
+        Scene.Builder b = Scene.builder(PixelGrid.linear(640, 670, 1500)).medium(Medium.air())
+                .instrument(Instrument.ofResolvingPower(resolvingPower)).naturalWidths(false).renderer(Renderer.AUTO)
+                .temperature(kelvin).nMax(12).velocity(velocity).peakCounts(5000);
+        if (density != null) {
+            b.electronDensity(density);
+        }
+        for (int k = 0; k < species.length; k++) {
+            Species s = Species.parse(species[k]);
+            if (s.isHydrogenLike()) {
+                b.hydrogenLike(s, HydrogenLikeModel.of(data.nucleus(s), Tier.QED), abundances[k]);
+            }
+        }
+        for (int k = 0; k < species.length; k++) {
+            Species s = Species.parse(species[k]);
+            if (!s.isHydrogenLike()) {
+                b.alkali(data.alkaliAtom(s), abundances[k], data.nucleus(s));
+            }
+        }
+        return b.noise(3, seed).build().render(1);
+    }
+
+    @Test
+    void spectraAndTruthAreTheLibrarysBitForBit() {
+        SparkSession spark = LocalSpark.session();
+        List<Row> scenes = new ArrayList<>();
+        scenes.add(RowFactory.create("s0", new String[] {"H I"}, null, 9000.0, null, 0.0, 8000.0, 1L));
+        scenes.add(RowFactory.create("s1", new String[] {"H I", "D I"}, new double[] {1, 0.3}, 12000.0, 1e21, 15e3,
+                20000.0, 2L));
+        scenes.add(RowFactory.create("s2", new String[] {"H I", "Li I"}, new double[] {1, 1e-3}, 6000.0, null,
+                -30e3, 5000.0, 3L));
+        scenes.add(RowFactory.create("s3", new String[] {"H I"}, null, 9000.0, null, 0.0, 8000.0, 4L));
+        scenes.add(RowFactory.create("dark", new String[] {"K I"}, null, 9000.0, null, 0.0, 8000.0, 5L));
+        List<Row> out = SurveySynthesis.of(GRID).synthesise(spark.createDataFrame(scenes, Schemas.SCENES)
+                .repartition(2)).collectAsList();
+        assertEquals(scenes.size(), out.size());
+        DataContext data = DataContext.discoverDefault();
+        for (Row row : out) {
+            Row in = scenes.stream().filter(s -> s.getString(0).equals(row.getString(0))).findFirst().orElseThrow();
+            String[] species = (String[]) in.get(1);
+            double[] abundances = new double[species.length];
+            java.util.Arrays.fill(abundances, 1.0);
+            if (!in.isNullAt(2)) {
+                abundances = (double[]) in.get(2);
+            }
+            if (row.getString(0).equals("dark")) {
+                // K I has no line between 640 and 670 nm (levels up to n = 12): the job refuses the scene.
+                org.ritzwerk.engine.synth.SceneException refused = org.junit.jupiter.api.Assertions.assertThrows(
+                        org.ritzwerk.engine.synth.SceneException.class, () -> library(data, species, new double[] {1},
+                                9000, null, 0, 8000, 5L));
+                assertEquals(refused.code(), row.getAs("failure_code"));
+                assertEquals(refused.getMessage(), row.getAs("failure"));
+                continue;
+            }
+            SyntheticSpectrum s = library(data, species, abundances, in.getDouble(3),
+                    in.isNullAt(4) ? null : in.getDouble(4), in.getDouble(5), in.getDouble(6), in.getLong(7));
+            assertNull(row.getAs("failure"), row.getString(0));
+            assertArrayEquals(s.counts(), toArray(row.getList(1)), row.getString(0));
+            assertArrayEquals(s.expectedCounts(), toArray(row.getList(2)));
+            List<Row> lines = row.getList(3);
+            assertEquals(s.lines().size(), lines.size());
+            for (int i = 0; i < lines.size(); i++) {
+                Row line = lines.get(i);
+                assertEquals(s.lines().label(i), line.getString(0));
+                assertEquals(s.lines().position(i), line.getDouble(1));
+                assertEquals(s.lines().photons(i), line.getDouble(2));
+                assertEquals(s.lines().gaussianFwhm(i), line.getDouble(3));
+                assertEquals(s.lines().lorentzFwhm(i), line.getDouble(4));
+                assertEquals(s.lineCounts(i), line.getDouble(5));
+            }
+        }
+        // The seed is the row's: two scenes alike but for the seed differ in their noise only.
+        Row s0 = out.stream().filter(r -> r.getString(0).equals("s0")).findFirst().orElseThrow();
+        Row s3 = out.stream().filter(r -> r.getString(0).equals("s3")).findFirst().orElseThrow();
+        assertEquals(s0.getList(2), s3.getList(2));
+        assertFalse(s0.getList(1).equals(s3.getList(1)));
+    }
+
+    @Test
+    void aMalformedSceneFailsTheJobNamingItsIdAndField() {
+        SparkSession spark = LocalSpark.session();
+        SurveySynthesis job = SurveySynthesis.of(GRID);
+        List<Row> cold = List.of(RowFactory.create("cold", new String[] {"H I"}, null, -5.0, null, 0.0, 8000.0, 1L));
+        String message = SurveyIdentificationTest.failure(() -> job.synthesise(
+                spark.createDataFrame(cold, Schemas.SCENES)).count());
+        assertEquals("row 'cold', field 'temperature_k': is -5.0; it must be above 0 K", message);
+        List<Row> unknown = List.of(RowFactory.create("odd", new String[] {"Fe I"}, null, 5000.0, null, 0.0, 8000.0,
+                1L));
+        message = SurveyIdentificationTest.failure(() -> job.synthesise(
+                spark.createDataFrame(unknown, Schemas.SCENES)).count());
+        assertTrue(message.startsWith("row 'odd', field 'species': Fe I: the engine's lines cover one-electron ions"),
+                message);
+        List<Row> uneven = List.of(RowFactory.create("uneven", new String[] {"H I", "D I"}, new double[] {1}, 5000.0,
+                null, 0.0, 8000.0, 1L));
+        message = SurveyIdentificationTest.failure(() -> job.synthesise(
+                spark.createDataFrame(uneven, Schemas.SCENES)).count());
+        assertEquals("row 'uneven', field 'abundances': has 1 elements, but species has 2", message);
+    }
+
+    private static double[] toArray(List<Double> list) {
+        double[] values = new double[list.size()];
+        for (int i = 0; i < values.length; i++) {
+            values[i] = list.get(i);
+        }
+        return values;
+    }
+}

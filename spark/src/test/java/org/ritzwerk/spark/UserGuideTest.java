@@ -1,0 +1,81 @@
+package org.ritzwerk.spark;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.SparkSession;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.refdata.DataContext;
+
+/**
+ * The README's Spark example, compiled and run in local mode: tables written to Parquet and read
+ * back (as a survey keeps them), identified, calibrated, applied and synthesised.
+ */
+class UserGuideTest {
+
+    @Test
+    void theReadmeExampleRunsOnStoredTables(@TempDir Path folder) {
+        SparkSession spark = LocalSpark.session();
+        String peakFiles = folder.resolve("peaks.parquet").toString();
+        String lampFiles = folder.resolve("lamps.parquet").toString();
+        String scienceFiles = folder.resolve("science.parquet").toString();
+        String sceneFiles = folder.resolve("scenes.parquet").toString();
+        String out = folder.toString();
+        Fixtures.peakListTable(spark, Fixtures.peakLists(List.of("H I", "He II"), 4, 10, 2, 7L), 2).write()
+                .parquet(peakFiles);
+        DataContext data = DataContext.builtIn();
+        double[] lamp = Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.0, 3L);
+        spark.createDataFrame(List.of(RowFactory.create("lamp-1", lamp, null)), Schemas.EXPOSURES).write()
+                .parquet(lampFiles);
+        spark.createDataFrame(List.of(RowFactory.create("star-1", "lamp-1", lamp)), Schemas.SCIENCE).write()
+                .parquet(scienceFiles);
+        List<Row> scenes = new ArrayList<>();
+        for (int k = 0; k < 4; k++) {
+            scenes.add(RowFactory.create("scene-" + k, new String[] {"H I"}, null, 8000.0 + 1000 * k, 1e20, 0.0,
+                    8000.0, 1000L + k));
+        }
+        spark.createDataFrame(scenes, Schemas.SCENES).write().parquet(sceneFiles);
+
+        // --- README: Spark ---
+        // Identification: one row per spectrum (id, positions, sigmas, intensities, widths), nm in vacuum.
+        Dataset<Row> peaks = spark.read().parquet(peakFiles);
+        SurveyIdentification.Result identified = SurveyIdentification.of(
+                IdentificationParameters.inWindow(List.of("H I", "He II"), List.of(), 360, 710)
+                        .withTolerance("5 sigma").withVelocitySearch(100e3))
+                .identify(peaks);
+        identified.spectra().persist();
+        identified.spectra().write().parquet(out + "/identified.parquet");   // velocity, presence, ...
+        identified.peaks().write().parquet(out + "/identified-peaks.parquet"); // one row per peak
+
+        // Calibration: raw lamp exposures (id, counts, sigmas), then science spectra (id, calibration_id, counts).
+        Dataset<Row> calibrations = SurveyCalibration.of(CalibrationParameters.of(List.of("Ne I"), List.of()))
+                .calibrate(spark.read().parquet(lampFiles));
+        calibrations.write().parquet(out + "/calibrations.parquet");
+        Dataset<Row> calibrated = SurveyCalibration.apply(spark.read().parquet(scienceFiles),
+                spark.read().parquet(out + "/calibrations.parquet"));          // wavelengths_nm per pixel
+
+        // Synthesis: scene parameters (id, species, abundances, temperature_k, electron_density_m3,
+        // velocity_m_s, resolving_power, seed) -> spectra with their truth.
+        Dataset<Row> spectra = SurveySynthesis.of(SynthesisParameters.linear(380, 700, 4000))
+                .synthesise(spark.read().parquet(sceneFiles));
+        spectra.write().parquet(out + "/spectra.parquet");
+        // --- end ---
+
+        assertEquals(4, spark.read().parquet(out + "/identified.parquet").count());
+        assertEquals(48, spark.read().parquet(out + "/identified-peaks.parquet").count());
+        Row calibration = spark.read().parquet(out + "/calibrations.parquet").first();
+        assertTrue(calibration.isNullAt(calibration.fieldIndex("failure")), "lamp-1 calibrates");
+        Row star = calibrated.first();
+        assertEquals(Fixtures.PIXELS, star.getList(star.fieldIndex("wavelengths_nm")).size());
+        assertEquals(4, spark.read().parquet(out + "/spectra.parquet").filter("failure IS NULL").count());
+        identified.spectra().unpersist();
+    }
+}
