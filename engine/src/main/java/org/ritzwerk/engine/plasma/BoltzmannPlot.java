@@ -1,5 +1,6 @@
 package org.ritzwerk.engine.plasma;
 
+import java.util.Optional;
 import org.ritzwerk.constants.PhysicalConstants;
 
 /**
@@ -61,6 +62,38 @@ public final class BoltzmannPlot {
      */
     public static Fit fit(Counting counting, double[] intensity, double[] intensitySigma, double[] upperEnergy,
             double[] upperWeight, double[] einsteinA, double[] frequency) {
+        Fit fit = fitOrRising(counting, intensity, intensitySigma, upperEnergy, upperWeight, einsteinA, frequency);
+        if (fit.slope() >= 0) {
+            throw new IllegalArgumentException("the Boltzmann plot rises with upper-level energy (slope " + fit.slope()
+                    + " J^-1): no positive excitation temperature fits these intensities");
+        }
+        return fit;
+    }
+
+    /**
+     * As {@link #fit}, for intensities that may come from a measurement: a plot that does not fall
+     * with upper-level energy (no positive temperature explains the intensities, as measured
+     * intensities of a few lines can give) is an answer, not a broken precondition.
+     *
+     * @param counting       how the intensities were measured
+     * @param intensity      line intensities, finite and positive, any common scale
+     * @param intensitySigma their standard uncertainties (finite, positive), or null
+     * @param upperEnergy    upper-level energies in J
+     * @param upperWeight    upper-level statistical weights g_u, positive
+     * @param einsteinA      Einstein A in s^-1, positive
+     * @param frequency      line frequencies in Hz, positive; needed for {@link Counting#ENERGY}
+     * @return the fit, or empty when its slope is not negative
+     * @throws IllegalArgumentException as {@link #fit} does, except for the slope
+     */
+    public static Optional<Fit> fitIfFalling(Counting counting, double[] intensity, double[] intensitySigma,
+            double[] upperEnergy, double[] upperWeight, double[] einsteinA, double[] frequency) {
+        Fit fit = fitOrRising(counting, intensity, intensitySigma, upperEnergy, upperWeight, einsteinA, frequency);
+        return fit.slope() < 0 ? Optional.of(fit) : Optional.empty();
+    }
+
+    /** The fit; for a slope that is not negative, temperature and its uncertainty are NaN. */
+    private static Fit fitOrRising(Counting counting, double[] intensity, double[] intensitySigma,
+            double[] upperEnergy, double[] upperWeight, double[] einsteinA, double[] frequency) {
         int n = intensity.length;
         sameLength("upper energies", upperEnergy, n);
         sameLength("statistical weights", upperWeight, n);
@@ -131,11 +164,10 @@ public final class BoltzmannPlot {
             chiSquare += w[i] * r * r;
         }
         double slopeVariance = weighted ? 1 / sxx : chiSquare / (n - 2) / sxx;
-        if (!(slope < 0)) {
-            throw new IllegalArgumentException("the Boltzmann plot rises with upper-level energy (slope " + slope
-                    + " J^-1): no positive excitation temperature fits these intensities");
-        }
         double slopeSigma = Math.sqrt(slopeVariance);
+        if (!(slope < 0)) {
+            return new Fit(Double.NaN, Double.NaN, slope, slopeSigma, intercept, chiSquare, n);
+        }
         double k = PhysicalConstants.K;
         double temperature = -1 / (k * slope);
         double temperatureSigma = slopeSigma / (k * slope * slope);

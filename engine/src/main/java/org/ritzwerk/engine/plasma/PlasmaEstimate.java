@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Optional;
 import java.util.OptionalDouble;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
@@ -193,10 +194,17 @@ public final class PlasmaEstimate {
                         "needs matched lines with intensities from at least 3 upper levels"));
                 continue;
             }
-            BoltzmannPlot.Fit fit = BoltzmannPlot.fit(BoltzmannPlot.Counting.PHOTONS,
+            Optional<BoltzmannPlot.Fit> falling = BoltzmannPlot.fitIfFalling(BoltzmannPlot.Counting.PHOTONS,
                     points.stream().mapToDouble(p -> p[0]).toArray(), null,
                     points.stream().mapToDouble(p -> p[1]).toArray(), points.stream().mapToDouble(p -> p[2]).toArray(),
                     points.stream().mapToDouble(p -> p[3]).toArray(), null);
+            if (falling.isEmpty()) {
+                rows.add(new Row(entry.getKey(), Quantity.EXCITATION_TEMPERATURE, OptionalDouble.empty(),
+                        OptionalDouble.empty(), String.valueOf(points.size()), "the Boltzmann plot rises with"
+                        + " upper-level energy: no positive temperature fits these intensities"));
+                continue;
+            }
+            BoltzmannPlot.Fit fit = falling.get();
             temperatures.put(entry.getKey(), fit.temperature());
             rows.add(new Row(entry.getKey(), Quantity.EXCITATION_TEMPERATURE, OptionalDouble.of(fit.temperature()),
                     OptionalDouble.of(fit.temperatureUncertainty()), String.valueOf(fit.lines()),

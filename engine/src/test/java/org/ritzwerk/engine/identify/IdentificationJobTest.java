@@ -87,6 +87,21 @@ class IdentificationJobTest {
         // relative effect on the width, about 1.5e-4 on the density.
         assertEquals(DENSITY, ne.value().getAsDouble(), 1e-3 * DENSITY, ne.note());
         assertTrue(rows.stream().anyMatch(r -> r.note().equals("the peak states no width")));
+
+        // Intensities that rise with upper-level energy (exp(+E / kT)): no positive temperature
+        // fits them; the estimate says so in its row instead of failing (a measured peak list can
+        // give such intensities; common practice).
+        double[] rising = new double[n];
+        for (int j = 0; j < n; j++) {
+            Candidates.Multiplet m = candidates.multiplet(rest, j);
+            rising[j] = m.weight() * m.einsteinA() * Math.exp(m.upperEnergy() / (PhysicalConstants.K * TEMPERATURE));
+        }
+        PlasmaEstimate.Row none = PlasmaEstimate.defaults().withInstrumentFwhm(INSTRUMENT)
+                .estimate(new PlasmaEstimate.Peaks(nm, Unit.NANOMETRE, Medium.vacuum(), rising, width),
+                        report.identification(), report.lines(), found).get(0);
+        assertEquals(PlasmaEstimate.Quantity.EXCITATION_TEMPERATURE, none.quantity());
+        assertTrue(none.value().isEmpty() && none.uncertainty().isEmpty());
+        assertTrue(none.note().startsWith("the Boltzmann plot rises"), none.note());
     }
 
     @Test
