@@ -1,10 +1,14 @@
 package org.ritzwerk.spark;
 
+import java.io.Serializable;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
 import java.util.function.Function;
+import org.apache.spark.api.java.function.MapPartitionsFunction;
+import org.apache.spark.broadcast.Broadcast;
+import org.apache.spark.sql.Row;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
@@ -82,6 +86,49 @@ final class Setups {
                 return mapping.apply(rows.next());
             }
         };
+    }
+
+    /**
+     * What a partition's setup does with one row; made once per partition from the broadcast
+     * parameters and the input's fields.
+     *
+     * @param <P> the parameter record
+     */
+    @FunctionalInterface
+    interface RowJob<P> extends Serializable {
+        /**
+         * @param parameters the broadcast parameters
+         * @param fields     the input's fields
+         * @return the partition's row mapping, with its setup made
+         */
+        Function<Row, Row> setUp(P parameters, Fields fields);
+    }
+
+    /**
+     * One partition: the job's setup once (from the parameters broadcast once per job), then one
+     * output row per input row, lazily.
+     *
+     * @param <P> the parameter record
+     */
+    static final class PartitionTask<P> implements MapPartitionsFunction<Row, Row> {
+        private static final long serialVersionUID = 1L;
+        private final Broadcast<P> shared;
+        private final Fields fields;
+        private final RowJob<P> job;
+
+        PartitionTask(Broadcast<P> shared, Fields fields, RowJob<P> job) {
+            this.shared = shared;
+            this.fields = fields;
+            this.job = job;
+        }
+
+        @Override
+        public Iterator<Row> call(Iterator<Row> rows) {
+            if (!rows.hasNext()) {
+                return rows;
+            }
+            return map(rows, job.setUp(shared.value(), fields));
+        }
     }
 
     /** @return the value, or null for NaN (undefined doubles are null in the output tables) */

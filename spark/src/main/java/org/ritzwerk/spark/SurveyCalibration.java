@@ -75,7 +75,10 @@ public final class SurveyCalibration {
         Fields fields = Fields.of(exposures.schema(), Schemas.EXPOSURES, "exposure");
         Broadcast<CalibrationParameters> shared = JavaSparkContext
                 .fromSparkContext(exposures.sparkSession().sparkContext()).broadcast(parameters);
-        return exposures.mapPartitions(new CalibrateTask(shared, fields), Encoders.row(Schemas.CALIBRATIONS));
+        return exposures.mapPartitions(new Setups.PartitionTask<>(shared, fields, (p, f) -> {
+            Setup setup = new Setup(p);
+            return row -> setup.calibrate(f, row);
+        }), Encoders.row(Schemas.CALIBRATIONS));
     }
 
     /** The columns of a calibration that applying it reads, in this order after the science columns. */
@@ -111,27 +114,6 @@ public final class SurveyCalibration {
                         col("c_covariance"), col("c_lowest_pixel"), col("c_highest_pixel"), col("c_failure_code"),
                         col("c_failure"));
         return joined.mapPartitions(new ApplyTask(), Encoders.row(Schemas.CALIBRATED));
-    }
-
-    /** One partition of exposures: the lamp set and calibrator once, then one row per exposure. */
-    private static final class CalibrateTask implements MapPartitionsFunction<Row, Row> {
-        private static final long serialVersionUID = 1L;
-        private final Broadcast<CalibrationParameters> shared;
-        private final Fields fields;
-
-        CalibrateTask(Broadcast<CalibrationParameters> shared, Fields fields) {
-            this.shared = shared;
-            this.fields = fields;
-        }
-
-        @Override
-        public Iterator<Row> call(Iterator<Row> rows) {
-            if (!rows.hasNext()) {
-                return rows;
-            }
-            Setup setup = new Setup(shared.value());
-            return Setups.map(rows, row -> setup.calibrate(fields, row));
-        }
     }
 
     /** The lamp set, calibrator and prior of one partition. */

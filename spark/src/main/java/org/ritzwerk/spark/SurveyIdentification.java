@@ -11,11 +11,9 @@ import static org.apache.spark.sql.functions.when;
 
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Iterator;
 import java.util.List;
 import java.util.Objects;
 import org.apache.spark.api.java.JavaSparkContext;
-import org.apache.spark.api.java.function.MapPartitionsFunction;
 import org.apache.spark.broadcast.Broadcast;
 import org.apache.spark.sql.Column;
 import org.apache.spark.sql.Dataset;
@@ -85,7 +83,10 @@ public final class SurveyIdentification {
         Fields fields = Fields.of(peakLists.schema(), Schemas.PEAK_LISTS, "peak-list");
         Broadcast<IdentificationParameters> shared = JavaSparkContext
                 .fromSparkContext(peakLists.sparkSession().sparkContext()).broadcast(parameters);
-        return new Result(peakLists.mapPartitions(new Task(shared, fields), Encoders.row(Schemas.IDENTIFIED_SPECTRA)));
+        return new Result(peakLists.mapPartitions(new Setups.PartitionTask<>(shared, fields, (p, f) -> {
+            Setup setup = new Setup(p);
+            return row -> setup.identify(f, row);
+        }), Encoders.row(Schemas.IDENTIFIED_SPECTRA)));
     }
 
     /**
@@ -118,27 +119,6 @@ public final class SurveyIdentification {
         /** @return one row per peak, {@link Schemas#IDENTIFIED_PEAKS} (spectra the job refused have none) */
         public Dataset<Row> peaks() {
             return spectra.select(col("id"), explode(col("peaks")).as("p")).select(col("id"), col("p.*"));
-        }
-    }
-
-    /** One partition: the setup once, then one row per spectrum. */
-    private static final class Task implements MapPartitionsFunction<Row, Row> {
-        private static final long serialVersionUID = 1L;
-        private final Broadcast<IdentificationParameters> shared;
-        private final Fields fields;
-
-        Task(Broadcast<IdentificationParameters> shared, Fields fields) {
-            this.shared = shared;
-            this.fields = fields;
-        }
-
-        @Override
-        public Iterator<Row> call(Iterator<Row> rows) {
-            if (!rows.hasNext()) {
-                return rows;
-            }
-            Setup setup = new Setup(shared.value());
-            return Setups.map(rows, row -> setup.identify(fields, row));
         }
     }
 

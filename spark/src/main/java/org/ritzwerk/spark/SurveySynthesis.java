@@ -2,12 +2,10 @@ package org.ritzwerk.spark;
 
 import java.util.ArrayList;
 import java.util.HashMap;
-import java.util.Iterator;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import org.apache.spark.api.java.JavaSparkContext;
-import org.apache.spark.api.java.function.MapPartitionsFunction;
 import org.apache.spark.broadcast.Broadcast;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Encoders;
@@ -70,27 +68,10 @@ public final class SurveySynthesis {
         Fields fields = Fields.of(scenes.schema(), Schemas.SCENES, "scene");
         Broadcast<SynthesisParameters> shared = JavaSparkContext
                 .fromSparkContext(scenes.sparkSession().sparkContext()).broadcast(parameters);
-        return scenes.mapPartitions(new Task(shared, fields), Encoders.row(Schemas.SPECTRA));
-    }
-
-    private static final class Task implements MapPartitionsFunction<Row, Row> {
-        private static final long serialVersionUID = 1L;
-        private final Broadcast<SynthesisParameters> shared;
-        private final Fields fields;
-
-        Task(Broadcast<SynthesisParameters> shared, Fields fields) {
-            this.shared = shared;
-            this.fields = fields;
-        }
-
-        @Override
-        public Iterator<Row> call(Iterator<Row> rows) {
-            if (!rows.hasNext()) {
-                return rows;
-            }
-            Setup setup = new Setup(shared.value());
-            return Setups.map(rows, row -> setup.synthesise(fields, row));
-        }
+        return scenes.mapPartitions(new Setups.PartitionTask<>(shared, fields, (p, f) -> {
+            Setup setup = new Setup(p);
+            return row -> setup.synthesise(f, row);
+        }), Encoders.row(Schemas.SPECTRA));
     }
 
     /** The data context, grid and species models of one partition. Not thread-safe (one task). */
