@@ -1,7 +1,15 @@
 package org.ritzwerk.cli;
 
+import java.nio.file.Files;
+import java.nio.file.InvalidPathException;
+import java.nio.file.Path;
+import java.util.Optional;
+import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.synth.LineColumns;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.DataFileException;
+import org.ritzwerk.refdata.LineListFiles;
 import org.ritzwerk.refdata.ReferenceDataException;
 
 /** The line lists that --lines (and --lamp) name: a user's file or a data set id. */
@@ -29,5 +37,30 @@ final class LineSets {
             }
             throw e;
         }
+    }
+
+    /**
+     * A --lines file beyond the whole-file reader's limits (64 MiB, a million rows) read as
+     * columns instead, streaming from the disk ({@link LineListFiles#readColumns}); or empty when
+     * the whole-file reader refused the set for another reason, which then stands.
+     *
+     * @param set     what --lines named
+     * @param refusal the whole-file reader's refusal
+     * @return the columns, when the refusal was only the file's size
+     * @throws DataFileException with every problem the streaming reader finds
+     */
+    static Optional<LineColumns> streamedWhenTooLarge(String set, DataFileException refusal) {
+        boolean tooLarge = DataFileException.TOO_LARGE.equals(refusal.code()) || refusal.problems().stream()
+                .anyMatch(p -> DataFileException.TOO_LARGE.equals(p.code()));
+        Path path;
+        try {
+            path = Path.of(set);
+        } catch (InvalidPathException e) {
+            return Optional.empty();
+        }
+        if (!tooLarge || !Files.isRegularFile(path)) {
+            return Optional.empty();
+        }
+        return Optional.of(LineListFiles.readColumns(path, DataKind.LINES));
     }
 }

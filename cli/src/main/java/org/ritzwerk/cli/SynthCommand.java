@@ -17,6 +17,7 @@ import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.synth.Continuum;
 import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.LineColumns;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Renderer;
 import org.ritzwerk.engine.synth.Scene;
@@ -24,6 +25,7 @@ import org.ritzwerk.engine.synth.SceneException;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.ContinuumFiles;
+import org.ritzwerk.refdata.DataFileException;
 import org.ritzwerk.refdata.OutputFiles;
 import org.ritzwerk.refdata.SpectrumLineFiles;
 import org.ritzwerk.refdata.SyntheticSpectrumFiles;
@@ -74,7 +76,8 @@ final class SynthCommand implements Callable<Integer> {
             description = "Also draw a line list: a data set id (e.g. lamp-ne-i) or a line-list file, with its "
                     + "relative intensities (lines without one are left out). Repeatable. With --species too, "
                     + "each list is scaled so its strongest line carries as many photons as the strongest ion "
-                    + "line.")
+                    + "line. A file beyond 64 MiB or a million lines is streamed from the disk as columns "
+                    + "(about 18 bytes a line).")
     List<String> lineSets = new ArrayList<>();
 
     @Option(names = "--medium", paramLabel = "MEDIUM", defaultValue = "vacuum",
@@ -250,9 +253,8 @@ final class SynthCommand implements Callable<Integer> {
             }
         }
         for (String set : lineSets) {
-            LineList list = LineSets.load(data.context(), set, "--lines");
             try {
-                builder.lineList(list, data.context()::nucleus);
+                addLines(builder, set);
             } catch (IllegalArgumentException e) {
                 throw new OptionException("--lines " + set + ": " + e.getMessage(), e);
             }
@@ -317,6 +319,23 @@ final class SynthCommand implements Callable<Integer> {
             batch.commit();
         }
         return 0;
+    }
+
+    /**
+     * One --lines set into the scene: read whole, or, for a file beyond the whole-file reader's
+     * limits, streamed as columns (millions of lines, no object a line; the same lines, counts
+     * and truth as the whole-file path gives for a smaller file).
+     */
+    private void addLines(Scene.Builder builder, String set) {
+        LineList list;
+        try {
+            list = LineSets.load(data.context(), set, "--lines");
+        } catch (DataFileException e) {
+            LineColumns columns = LineSets.streamedWhenTooLarge(set, e).orElseThrow(() -> e);
+            builder.lineColumns(columns, data.context()::nucleus);
+            return;
+        }
+        builder.lineList(list, data.context()::nucleus);
     }
 
     /** Counts are kept exact as whole numbers in a double up to 2^53 (about 9e15): the cap of every count option. */

@@ -77,6 +77,32 @@ class SynthCommandTest {
     }
 
     @Test
+    void aLineListBeyondTheWholeFileReadersLimitsIsStreamed(@TempDir Path dir) throws IOException {
+        // 1,000,000 weak invented Ne I lines 1e-4 nm apart from 500 nm, one more than the whole-file
+        // reader takes, and one strong line at 550.00005 nm: the file is read as columns instead
+        // of refused, and the strong line makes the brightest pixel.
+        Path list = dir.resolve("million.csv");
+        try (var w = Files.newBufferedWriter(list, StandardCharsets.UTF_8)) {
+            w.write("# ritzwerk-lines 1\n# id: million\n# title: invented lines\n# source: invented for tests\n"
+                    + "# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: vacuum\n"
+                    + "species,position,intensity\n");
+            for (int i = 0; i < 1_000_000; i++) {
+                w.write(String.format(Locale.ROOT, "Ne I,%.4f,0.001%n", 500 + i * 1e-4));
+            }
+            w.write("Ne I,550.00005,1000000\n");
+        }
+        CliTest.Run run = CliTest.run("synth", "--lines", list.toString(), "--from", "549 nm", "--to", "551 nm",
+                "--pixels", "400", "--temperature", "300", "--no-noise");
+        assertEquals(0, run.code(), run.err());
+        double[][] rows = columns(run.out());
+        int brightest = 0;
+        for (int p = 1; p < rows.length; p++) {
+            brightest = rows[p][1] > rows[brightest][1] ? p : brightest;
+        }
+        assertEquals(550.00005, rows[brightest][0], 0.005, "pixel width 0.005 nm");
+    }
+
+    @Test
     void sameSeedSameSpectrumAndTruthAddsUp(@TempDir Path dir) throws IOException {
         String[] args = {"synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm", "--temperature", "8000",
             "--pixels", "500", "--seed", "11"};
