@@ -141,6 +141,9 @@ class ContractFuzzTest {
         Files.writeString(peaks, PEAKS_CSV);
         fuzz(dir, "candidates.csv", CliTest.run("data", "show", "lamp-ne-i", "--format", "csv").out(), 405,
                 f -> args("identify", peaks.toString(), "--lines", f, "--tolerance", "0.05 nm"));
+        // A measured Rydberg series, read by the series command's reader.
+        fuzz(dir, "series.csv", Files.readString(Path.of("src", "test", "resources", "org", "ritzwerk", "cli",
+                "series-rb-87.csv"), StandardCharsets.UTF_8), 406, f -> args("series", f, "--predict", "60"));
     }
 
     @Test
@@ -212,6 +215,15 @@ class ContractFuzzTest {
         String[] lines = {"lines", "--species", "H", "--from", "640 nm", "--to", "670 nm"};
         String[] alkali = {"levels", "--species", "Rb-87 I", "--n-max", "7", "--lifetimes"};
         String[] hyperfine = {"lines", "--species", "Rb-87 I", "--hyperfine"};
+        Path series = dir.resolve("fixed-series.csv");
+        Files.copy(Path.of("src", "test", "resources", "org", "ritzwerk", "cli", "series-rb-87.csv"), series);
+        String[] fit = {"series", series.toString()};
+        String[] polarizability = {"rydberg", "polarizability", "--species", "Rb-87 I", "--state", "40s1/2"};
+        String[] starkMap = {"rydberg", "stark-map", "--species", "Rb-87 I", "--state", "30s1/2", "--l-max", "4",
+            "--steps", "3"};
+        String[] pair = {"rydberg", "pair", "--species", "Rb-87 I", "--state", "40s1/2"};
+        String[] microwave = {"rydberg", "microwave", "--species", "Rb-87 I", "--state", "40s1/2", "--to",
+            "40p3/2"};
         Object[][] cases = {
             {identify, "--n-max"}, {identify, "--search-velocity"}, {identify, "--search-offset"},
             {identify, "--excitation-temperature"}, {identify, "--tolerance"}, {plasma, "--instrument-fwhm"},
@@ -224,6 +236,9 @@ class ContractFuzzTest {
             {synth, "--read-noise"}, {synth, "--electron-density"}, {synth, "--threads"}, {synth, "--dispersion"},
             {lines, "--n-max"}, {lines, "--min-a"}, {alkali, "--temperature"}, {alkali, "--l-max"},
             {hyperfine, "--field-tesla"},
+            {fit, "--predict"}, {fit, "--max-terms"}, {polarizability, "--range"}, {starkMap, "--field-max"},
+            {starkMap, "--window"}, {pair, "--rabi"}, {pair, "--angle"}, {pair, "--range"},
+            {microwave, "--field"}, {microwave, "--splitting"}, {microwave, "--near"},
             {new String[] {"convert", "656.28 nm", "--to", "THz"}, "--digits"},
             {new String[] {"convert", "--to", "THz"}, null}};
         Random random = new Random(701 + SEED);
