@@ -34,6 +34,11 @@ import org.ritzwerk.medium.Medium;
  * @param priorToNm         highest such wavelength; NaN with priorFromNm
  * @param minDispersion     lowest dispersion, nm per pixel (negative when wavelength falls)
  * @param maxDispersion     highest dispersion, nm per pixel
+ *
+ * <p>Serialisable only to travel from the driver to the executors of the same version, so the
+ * serialised form is not part of the API.
+ *
+ * @serial exclude
  */
 public record CalibrationParameters(List<String> lamps, List<String> lineSets, List<String> dataFiles, String medium,
         String minStrength, double threshold, double tolerancePixels, double minMatched, double clip, int degree,

@@ -54,6 +54,11 @@ import org.ritzwerk.quantity.Unit;
  *                              none)
  * @param resolvingPower        for the plasma estimate, instead: the response's lambda / FWHM; NaN
  *                              to use {@code instrumentFwhmNm}
+ *
+ * <p>Serialisable only to travel from the driver to the executors of the same version, so the
+ * serialised form is not part of the API.
+ *
+ * @serial exclude
  */
 public record IdentificationParameters(List<String> species, String model, int nMax, boolean components,
         List<String> lineSets, List<String> dataFiles, double excitationTemperature, double windowFromNm,

@@ -29,6 +29,11 @@ import org.ritzwerk.medium.Medium;
  * @param readNoise  read noise in counts (Poisson noise always, drawn from each row's seed); NaN
  *                   for no noise at all (counts then equal the expected counts)
  * @param dataFiles  the user's data files, first in precedence; readable on every executor
+ *
+ * <p>Serialisable only to travel from the driver to the executors of the same version, so the
+ * serialised form is not part of the API.
+ *
+ * @serial exclude
  */
 public record SynthesisParameters(double fromNm, double toNm, int pixels, String medium, String model, int nMax,
         String renderer, double peakCounts, double readNoise, List<String> dataFiles) implements Serializable {
