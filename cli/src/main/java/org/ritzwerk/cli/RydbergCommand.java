@@ -216,11 +216,9 @@ final class RydbergCommand implements Runnable {
             State state = common.state();
             int twoMj = parseProjection("--mj", mj, state);
             AlkaliAtom atom = common.atom();
-            // The default basis spans the state's n and its nearest hydrogenic manifold, round(n*),
-            // and one more n on each side.
-            int nearest = (int) Math.round(atom.level(state).effectiveN());
-            int low = nMin != null ? nMin : Math.max(1, Math.min(state.n(), nearest) - 1);
-            int high = nMax != null ? nMax : Math.max(state.n(), nearest) + 1;
+            int[] around = StarkMap.principalRangeAround(atom, state);     // the library's default basis
+            int low = nMin != null ? nMin : around[0];
+            int high = nMax != null ? nMax : around[1];
             if (low < 1 || high < low || high - low > 20 || state.n() < low || state.n() > high) {
                 throw new OptionException("--n-min and --n-max must hold the state's n = " + state.n() + ", with "
                         + "1 <= n-min <= n-max <= n-min + 20; got " + low + " to " + high);

@@ -74,6 +74,20 @@ public final class StarkMap {
     }
 
     /**
+     * The usual n range of a map around one state: its own n and its nearest hydrogenic
+     * manifold, round(n*), and one more n on each side.
+     *
+     * @param atom  the atom
+     * @param state the state the map is about
+     * @return {lowest n, highest n}
+     * @throws RydbergException when the atom has no energy for the state
+     */
+    public static int[] principalRangeAround(AlkaliAtom atom, State state) {
+        int nearest = (int) Math.round(atom.level(state).effectiveN());
+        return new int[] {Math.max(1, Math.min(state.n(), nearest) - 1), Math.max(state.n(), nearest) + 1};
+    }
+
+    /**
      * @param atom the atom
      * @return a builder of the basis
      */
@@ -103,6 +117,20 @@ public final class StarkMap {
             }
             this.twoMj = twice;
             return this;
+        }
+
+        /**
+         * The usual basis for a map around one state: its own n and its nearest hydrogenic
+         * manifold, round(n*), and one more n on each side (for Rb 50S, n* = 46.9, the n = 47
+         * manifold lies below n - 2, so it must be taken in).
+         *
+         * @param state the state the map is about
+         * @return this builder, with that n range
+         * @throws RydbergException when the atom has no energy for the state
+         */
+        public Builder principalRangeAround(State state) {
+            int[] range = StarkMap.principalRangeAround(atom, state);
+            return principalRange(range[0], range[1]);
         }
 
         /**

@@ -39,6 +39,16 @@ class StarkMapTest {
      * m_l = 1 (n1 - n2 = -(n-2) ... n-2), 2n - 1 states.
      */
     @Test
+    void theUsualBasisTakesInTheNearestHydrogenicManifold() {
+        // Rb nS has a quantum defect near 3.13 (common practice): 50S has n* = 46.9, so the
+        // n = 47 manifold, below n - 2, must be in the basis, with one more n on each side.
+        assertTrue(Math.abs(RB.level(State.of(50, 0, 1)).effectiveN() - 46.87) < 0.05);
+        assertTrue(Arrays.equals(new int[] {46, 51}, StarkMap.principalRangeAround(RB, State.of(50, 0, 1))));
+        // A high-l state has n* = n: its own n and one on each side.
+        assertTrue(Arrays.equals(new int[] {39, 41}, StarkMap.principalRangeAround(RB, State.of(40, 5, 11))));
+    }
+
+    @Test
     void hydrogenLinearStarkEffectInOneManifold() {
         AlkaliAtom h = hydrogen();
         for (int n : new int[] {3, 6, 10}) {
