@@ -93,6 +93,12 @@ final class SeriesCommand implements Callable<Integer> {
         if (plot != null && !plot.toString().toLowerCase(java.util.Locale.ROOT).endsWith(".png")) {
             throw new OptionException("--plot must name a .png file, got " + plot);
         }
+        if (plot != null) {
+            // Before any work: the plot may not be an input, and its folder must exist and be writable.
+            List<OutputFiles.Named> inputs = data.inputs(List.of());
+            inputs.add(new OutputFiles.Named("FILE", file));
+            OutputFiles.check(List.of(new OutputFiles.Named("--plot", plot)), inputs);
+        }
         SeriesFiles.Contents contents = SeriesFiles.read(file);
         List<RydbergSeries> series = contents.series();
         if (!terms.isEmpty() && terms.size() != series.size()) {

@@ -79,6 +79,13 @@ class SeriesCommandTest {
         CliTest.Run unknown = CliTest.run("series", file.toString(), "--plot", png.toString(), "--plot-series", "nP");
         assertEquals(2, unknown.code());
         assertTrue(unknown.err().contains("no series 'nP'") && unknown.err().contains("nS1/2, nD5/2"), unknown.err());
+        // A plot into a folder that does not exist is refused before any work, naming the option.
+        String before = Files.readString(file);
+        CliTest.Run missing = CliTest.run("series", file.toString(), "--plot", dir.resolve("no-such-folder")
+                .resolve("d.png").toString());
+        assertEquals(2, missing.code());
+        assertTrue(missing.err().contains("--plot"), missing.err());
+        assertEquals(before, Files.readString(file));
     }
 
     @Test
