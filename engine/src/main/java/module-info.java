@@ -11,7 +11,6 @@ module org.ritzwerk.engine {
     requires org.apache.commons.math4.transform;
     requires org.apache.commons.numbers.gamma;
 
-    exports org.ritzwerk.engine.angular;
     exports org.ritzwerk.engine.calibrate;
     exports org.ritzwerk.engine.convert;
     exports org.ritzwerk.engine.hydrogenic;

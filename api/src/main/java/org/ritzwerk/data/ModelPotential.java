@@ -12,7 +12,7 @@ import java.util.Objects;
  *   Z_l(r) = 1 + (Z - 1) exp(-a1 r) - r (a3 + a4 r) exp(-a2 r),
  * </pre>
  * with one parameter set per l (the last one serves every higher l). This record only describes
- * the potential; the engine evaluates it ({@code org.ritzwerk.engine.rydberg.ModelPotentials}).
+ * the potential; the engine evaluates it ({@code org.ritzwerk.engine.internal.radial.ModelPotentials}).
  * Immutable and thread-safe.
  *
  * @param z      nuclear charge Z

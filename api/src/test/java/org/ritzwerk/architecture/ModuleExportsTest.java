@@ -36,7 +36,6 @@ class ModuleExportsTest {
                     "org.ritzwerk.medium",
                     "org.ritzwerk.quantity"),
             "engine", Set.of(
-                    "org.ritzwerk.engine.angular",
                     "org.ritzwerk.engine.calibrate",
                     "org.ritzwerk.engine.convert",
                     "org.ritzwerk.engine.hydrogenic",

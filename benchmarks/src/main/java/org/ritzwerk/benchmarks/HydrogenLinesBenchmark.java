@@ -16,7 +16,7 @@ import org.openjdk.jmh.annotations.Warmup;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
-import org.ritzwerk.engine.hydrogenic.RadialIntegrals;
+import org.ritzwerk.engine.internal.radial.RadialIntegrals;
 
 /**
  * Hydrogen lines (QED tier) with upper n up to 10 and 20: {@link HydrogenLikeLines#components}

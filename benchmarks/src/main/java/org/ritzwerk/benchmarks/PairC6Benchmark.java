@@ -15,7 +15,7 @@ import org.openjdk.jmh.annotations.Warmup;
 import org.ritzwerk.engine.pair.PairInteractions;
 import org.ritzwerk.engine.pair.PairState;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.stark.AtomicUnits;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 
 /**
  * C6 of the Rb-87 pair nS1/2 + nS1/2 (m = 1/2 each) near n = 70, n' within n +- 6, a fresh atom

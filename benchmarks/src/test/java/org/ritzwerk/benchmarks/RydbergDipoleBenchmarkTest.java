@@ -4,7 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
-import org.ritzwerk.engine.hydrogenic.RadialIntegrals;
+import org.ritzwerk.engine.internal.radial.RadialIntegrals;
 
 /**
  * The square-root-grid Numerov and the uniform-grid baseline of {@link RydbergDipoleBenchmark}

@@ -72,12 +72,12 @@ class ArchitectureTest {
      */
     private static final Pattern COMPUTATION = Pattern.compile(
             "^import (static )?(org\\.apache\\.commons\\.(math3|math4|numbers)\\."
-            + "|org\\.ritzwerk\\.engine\\.(profile|angular)\\."
-            + "|org\\.ritzwerk\\.engine\\.hydrogenic\\.(RadialIntegrals|AngularFactors|BetheLogarithms)\\b"
+            + "|org\\.ritzwerk\\.engine\\.(profile|internal)\\."
+            + "|org\\.ritzwerk\\.engine\\.hydrogenic\\.(AngularFactors|BetheLogarithms)\\b"
             + "|org\\.ritzwerk\\.engine\\.synth\\.(LineRenderer|GaussLegendre)\\b"
             + "|org\\.ritzwerk\\.engine\\.calibrate\\.(PolynomialLeastSquares|CurvedPolynomial|GaussianBlendFit|Baseline"
             + "|DispersionFit)\\b"
-            + "|org\\.ritzwerk\\.engine\\.rydberg\\.(RadialWavefunction|ModelPotentials)\\b"
+            + "|org\\.ritzwerk\\.engine\\.rydberg\\.RadialWavefunction\\b"
             + "|org\\.ritzwerk\\.engine\\.plasma\\.(BoltzmannPlot|VoigtLineFit|IonisationBalance)\\b)");
 
     @Test

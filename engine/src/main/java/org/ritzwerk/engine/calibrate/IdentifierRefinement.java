@@ -20,7 +20,7 @@ import org.ritzwerk.quantity.Unit;
  *
  * <p>Stateless and thread-safe.
  */
-public final class IdentifierRefinement {
+final class IdentifierRefinement {
 
     private IdentifierRefinement() {
     }

@@ -1,6 +1,6 @@
 package org.ritzwerk.engine.hydrogenic;
 
-import org.ritzwerk.engine.angular.WignerSymbols;
+import org.ritzwerk.engine.internal.angular.WignerSymbols;
 
 /**
  * The fine-structure shares of one-electron line strengths, from the Wigner 6j symbols of

@@ -5,6 +5,7 @@ import java.util.Objects;
 import java.util.function.DoubleConsumer;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.quantity.SpectralQuantity;
+import org.ritzwerk.engine.internal.radial.RadialIntegrals;
 
 /**
  * Electric-dipole lines of a one-electron ion: fine-structure components and n -> n' multiplets

@@ -6,6 +6,7 @@ import java.util.Objects;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.internal.radial.RadialIntegrals;
 
 /**
  * Energy levels of a one-electron ion (H, D, He II, ..., U XCII) under one {@link Tier}.

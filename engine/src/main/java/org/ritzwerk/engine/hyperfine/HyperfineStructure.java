@@ -5,7 +5,7 @@ import static org.ritzwerk.engine.hydrogenic.Notation.half;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
-import org.ritzwerk.engine.angular.WignerSymbols;
+import org.ritzwerk.engine.internal.angular.WignerSymbols;
 
 /**
  * Hyperfine levels of a fine-structure level and the F -> F' components of a line between two

@@ -8,7 +8,7 @@ import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
 import org.apache.commons.math4.legacy.linear.EigenDecomposition;
 import org.apache.commons.math4.legacy.linear.RealMatrix;
 import org.ritzwerk.constants.PhysicalConstants;
-import org.ritzwerk.engine.angular.WignerSymbols;
+import org.ritzwerk.engine.internal.angular.WignerSymbols;
 
 /**
  * The Zeeman effect on hyperfine levels: the Breit-Rabi formula of a J = 1/2 level, the full

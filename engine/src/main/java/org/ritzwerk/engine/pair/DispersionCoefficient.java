@@ -1,7 +1,7 @@
 package org.ritzwerk.engine.pair;
 
 import java.util.Objects;
-import org.ritzwerk.engine.stark.AtomicUnits;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 
 /**
  * The van der Waals coefficient of a pair state, {@code dE = C6 / R^6} (positive: repulsive), from

@@ -4,10 +4,10 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import org.ritzwerk.atom.State;
-import org.ritzwerk.engine.angular.WignerSymbols;
+import org.ritzwerk.engine.internal.angular.WignerSymbols;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.RydbergException;
-import org.ritzwerk.engine.stark.AtomicUnits;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 import org.ritzwerk.engine.stark.StarkException;
 
 /**

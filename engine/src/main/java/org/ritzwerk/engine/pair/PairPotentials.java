@@ -7,10 +7,10 @@ import java.util.Objects;
 import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
 import org.apache.commons.math4.legacy.linear.EigenDecomposition;
 import org.ritzwerk.atom.State;
-import org.ritzwerk.engine.angular.WignerSymbols;
+import org.ritzwerk.engine.internal.angular.WignerSymbols;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.RydbergException;
-import org.ritzwerk.engine.stark.AtomicUnits;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 import org.ritzwerk.engine.stark.StarkException;
 
 /**

@@ -25,7 +25,7 @@ import org.ritzwerk.engine.profile.Profiles;
  * <p>The model value of a pixel is the profile at its centre times its width (the flux in it to
  * second order in the pixel width over the line width). Stateless and thread-safe.
  */
-public final class VoigtLineFit {
+final class VoigtLineFit {
 
     private static final int FLUX = 0;
     private static final int CENTRE = 1;

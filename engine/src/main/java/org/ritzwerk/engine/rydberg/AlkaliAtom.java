@@ -14,7 +14,7 @@ import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.MeasuredLevel;
 import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
-import org.ritzwerk.engine.angular.WignerSymbols;
+import org.ritzwerk.engine.internal.angular.WignerSymbols;
 
 /**
  * One alkali atom (one valence electron outside a closed core) built from a quantum-defect set,

@@ -3,6 +3,7 @@ package org.ritzwerk.engine.rydberg;
 import java.util.Objects;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.data.ModelPotential;
+import org.ritzwerk.engine.internal.radial.ModelPotentials;
 
 /**
  * A normalised radial wavefunction {@code R(r)} in the Coulomb approximation, from Numerov
@@ -31,7 +32,7 @@ import org.ritzwerk.data.ModelPotential;
  * {@code 2 h sum X_k^2 x_k^2 = 1} (the integral of R^2 r^2 dr) and is positive in its outermost
  * lobe, at large r, whatever happens at the core: the sign of a matrix element then does not
  * depend on the inner cut-off or on the potential used there. (For hydrogen this differs from the
- * positive-near-the-origin convention of {@link org.ritzwerk.engine.hydrogenic.RadialIntegrals}
+ * positive-near-the-origin convention of {@link org.ritzwerk.engine.internal.radial.RadialIntegrals}
  * by {@code (-1)^(n-l-1)}.)
  *
  * <p>Accuracy: for zero quantum defects the dipole integrals agree with the closed form to about

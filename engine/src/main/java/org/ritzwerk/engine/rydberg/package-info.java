@@ -8,7 +8,7 @@
  * <p>The states ({@link org.ritzwerk.atom.State}) and the parameters the models take (quantum
  * defects, measured levels, core polarizabilities, model-potential parameters; in
  * {@code org.ritzwerk.data}) are value types of the api module; this package computes with them
- * ({@link org.ritzwerk.engine.rydberg.ModelPotentials} evaluates a model potential).
+ * ({@link org.ritzwerk.engine.internal.radial.ModelPotentials} evaluates a model potential).
  *
  * <p>Units: level energies in cm^-1 above the ground level (and joules where the method name
  * says so), frequencies in Hz, wavelengths in metres, radii and radial integrals in Bohr radii

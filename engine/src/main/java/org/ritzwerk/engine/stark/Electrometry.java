@@ -8,6 +8,7 @@ import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 
 /**
  * Microwave electrometry with Rydberg atoms: a resonant field of amplitude E on the transition

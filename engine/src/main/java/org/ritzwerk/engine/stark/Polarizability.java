@@ -2,6 +2,7 @@ package org.ritzwerk.engine.stark;
 
 import java.util.Objects;
 import org.ritzwerk.atom.State;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 
 /**
  * The static dipole polarizability of one fine-structure state, {@code dE(m_j) = -alpha(m_j) F^2 / 2}

@@ -2,9 +2,10 @@ package org.ritzwerk.engine.stark;
 
 import java.util.Objects;
 import org.ritzwerk.atom.State;
-import org.ritzwerk.engine.angular.WignerSymbols;
+import org.ritzwerk.engine.internal.angular.WignerSymbols;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 
 /**
  * Static polarizabilities of an alkali atom's states by second-order perturbation theory over the

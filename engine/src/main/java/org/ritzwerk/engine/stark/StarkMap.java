@@ -9,10 +9,11 @@ import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
 import org.apache.commons.math4.legacy.linear.ArrayRealVector;
 import org.apache.commons.math4.legacy.linear.EigenDecomposition;
 import org.ritzwerk.atom.State;
-import org.ritzwerk.engine.angular.WignerSymbols;
+import org.ritzwerk.engine.internal.angular.WignerSymbols;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.RadialWavefunction;
 import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 
 /**
  * One atom in a static electric field F along the quantisation axis z: the Hamiltonian

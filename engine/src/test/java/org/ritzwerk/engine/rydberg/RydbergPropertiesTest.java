@@ -13,7 +13,8 @@ import org.ritzwerk.atom.State;
 import org.ritzwerk.data.CorePolarizability;
 import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
-import org.ritzwerk.engine.hydrogenic.RadialIntegrals;
+import org.ritzwerk.engine.internal.radial.RadialIntegrals;
+import org.ritzwerk.engine.internal.radial.ModelPotentials;
 
 /**
  * Identities of the Rydberg model on seeded random inputs (QuickTheories): the Numerov functions
@@ -156,7 +157,7 @@ class RydbergPropertiesTest {
                 sum += d * d;
             }
         }
-        double threeJ = org.ritzwerk.engine.angular.WignerSymbols.threeJ(4, 2, 6, 0, 0, 0);
+        double threeJ = org.ritzwerk.engine.internal.angular.WignerSymbols.threeJ(4, 2, 6, 0, 0, 0);
         assertEquals(2 * 5 * 7 * threeJ * threeJ * radial * radial, sum, 1e-12 * sum);
         assertEquals(0.0, rubidium.reducedDipole(State.of(30, 1, 1), State.of(30, 2, 5)), 0.0);
     }

@@ -8,6 +8,7 @@ import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.TestAtoms;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 
 class PolarizabilityTest {
 

@@ -17,6 +17,7 @@ import org.ritzwerk.data.Provenance;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.TestAtoms;
+import org.ritzwerk.engine.internal.units.AtomicUnits;
 
 class StarkMapTest {
 

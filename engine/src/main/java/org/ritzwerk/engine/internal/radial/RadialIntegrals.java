@@ -1,6 +1,7 @@
-package org.ritzwerk.engine.hydrogenic;
+package org.ritzwerk.engine.internal.radial;
 
 import java.math.BigInteger;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 
 /**
  * Nonrelativistic hydrogen radial dipole integrals
@@ -50,7 +51,8 @@ public final class RadialIntegrals {
         return l2 == l - 1 ? gordon(n, l, n2) : gordon(n2, l2, n);
     }
 
-    static void checkState(int n, int l, String which) {
+    /** Refuses a state outside 1 <= n <= {@link HydrogenLikeLines#MAX_N}, 0 <= l < n, naming {@code which} state. */
+    public static void checkState(int n, int l, String which) {
         String of = which.isEmpty() ? "" : " of the " + which + " state";
         if (n < 1) {
             throw new IllegalArgumentException("principal quantum number n" + of + " must be >= 1, got " + n);

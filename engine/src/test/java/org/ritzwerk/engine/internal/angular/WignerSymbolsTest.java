@@ -1,4 +1,4 @@
-package org.ritzwerk.engine.angular;
+package org.ritzwerk.engine.internal.angular;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;

@@ -1,4 +1,4 @@
-package org.ritzwerk.engine.stark;
+package org.ritzwerk.engine.internal.units;
 
 import org.ritzwerk.constants.PhysicalConstants;
 

@@ -1,4 +1,4 @@
-package org.ritzwerk.engine.rydberg;
+package org.ritzwerk.engine.internal.radial;
 
 import org.ritzwerk.data.ModelPotential;
 

@@ -1,4 +1,4 @@
-package org.ritzwerk.engine.angular;
+package org.ritzwerk.engine.internal.angular;
 
 /**
  * Wigner 3j and 6j symbols by Racah's closed formulas (A. R. Edmonds, Angular Momentum in Quantum

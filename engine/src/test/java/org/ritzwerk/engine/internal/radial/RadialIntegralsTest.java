@@ -1,4 +1,4 @@
-package org.ritzwerk.engine.hydrogenic;
+package org.ritzwerk.engine.internal.radial;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
