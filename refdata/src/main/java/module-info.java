@@ -13,7 +13,7 @@ module org.ritzwerk.refdata {
 
     uses org.ritzwerk.data.ReferenceDataProvider;
 
-    provides org.ritzwerk.data.ReferenceDataProvider with org.ritzwerk.refdata.NuclearProvider,
-            org.ritzwerk.refdata.LampProvider, org.ritzwerk.refdata.HydrogenLikeProvider,
-            org.ritzwerk.refdata.RydbergProvider, org.ritzwerk.refdata.LevelProvider;
+    provides org.ritzwerk.data.ReferenceDataProvider with org.ritzwerk.refdata.internal.NuclearProvider,
+            org.ritzwerk.refdata.internal.LampProvider, org.ritzwerk.refdata.internal.HydrogenLikeProvider,
+            org.ritzwerk.refdata.internal.RydbergProvider, org.ritzwerk.refdata.internal.LevelProvider;
 }

@@ -8,7 +8,7 @@ import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.refdata.RydbergData;
+import org.ritzwerk.refdata.DataContext;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 
@@ -51,7 +51,7 @@ class AlkaliCommandsTest {
     void levelsOfRubidiumCarryTheIssueFields() {
         CliTest.Run run = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "80", "--format", "json");
         assertEquals(0, run.code(), run.err());
-        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        AlkaliAtom rb = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I"));
         int rows = 0;
         for (String line : run.out().split("\n")) {
             JsonNode node = JSON.readTree(line);
@@ -77,7 +77,7 @@ class AlkaliCommandsTest {
                 "--format", "json");
         assertEquals(0, run.code(), run.err());
         JsonNode node = JSON.readTree(run.out());
-        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        AlkaliAtom rb = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I"));
         State d = State.parse("50d5/2");
         State p = State.parse("51p3/2");
         assertEquals(Math.abs(rb.frequencyHz(p, d)), node.get("frequency_hz").asDouble(), 1);
@@ -106,7 +106,7 @@ class AlkaliCommandsTest {
         CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--from", "16.9GHz", "--to", "17.2GHz",
                 "--n-max", "55", "--format", "json");
         assertEquals(0, run.code(), run.err());
-        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        AlkaliAtom rb = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I"));
         boolean found = false;
         for (String line : run.out().split("\n")) {
             JsonNode node = JSON.readTree(line);

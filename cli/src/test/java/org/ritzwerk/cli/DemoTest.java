@@ -13,7 +13,7 @@ import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.refdata.RydbergData;
+import org.ritzwerk.refdata.DataContext;
 
 /**
  * The demo end to end: its report holds the expected identifications and its estimates come
@@ -57,7 +57,7 @@ class DemoTest {
         // recalled, from memory) less the 5p3/2 energy 12 816.55 cm-1 and the 50d binding
         // R / n*^2 = 46.4 cm-1 (n* = 48.65 with the d5/2 quantum defect 1.35; T. F. Gallagher,
         // Rydberg Atoms (Cambridge, 1994), ch. 2) is 20 827.9 cm-1, 479.99 nm in air.
-        AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+        AlkaliAtom rb = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I"));
         double modelGhz = Math.abs(rb.frequencyHz(State.parse("51p3/2"), State.parse("50d5/2"))) / 1e9;
         assertEquals(modelGhz, r.rydbergMicrowaveGhz.get(1), 1e-9, report);
         assertEquals(480.0, r.rydbergSecondLaserNm.get(1), 0.5, report);

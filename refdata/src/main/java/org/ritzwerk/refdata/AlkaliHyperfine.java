@@ -28,6 +28,8 @@ import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.hyperfine.ZeemanComponent;
 import org.ritzwerk.engine.hyperfine.ZeemanStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.refdata.internal.BuiltInCsv;
+import org.ritzwerk.refdata.internal.RydbergData;
 
 /**
  * Ritzwerk's built-in D-line centroids and hyperfine constants of the alkali isotopes Li-6, Li-7,

@@ -27,6 +27,7 @@ import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.internal.RydbergData;
 
 /**
  * The data a computation uses, passed explicitly: a {@link DataRegistry} (user files first, then

@@ -18,6 +18,12 @@ import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
+import org.ritzwerk.refdata.internal.HydrogenLikeProvider;
+import org.ritzwerk.refdata.internal.LampProvider;
+import org.ritzwerk.refdata.internal.LevelProvider;
+import org.ritzwerk.refdata.internal.NuclearProvider;
+import org.ritzwerk.refdata.internal.RydbergProvider;
+import org.ritzwerk.refdata.internal.SetDetails;
 
 /**
  * The data sets available from a fixed list of providers, in order of precedence: the user's

@@ -16,6 +16,7 @@ import org.ritzwerk.engine.hyperfine.HyperfineConstants;
 import org.ritzwerk.engine.hyperfine.HyperfineLevel;
 import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.refdata.internal.BuiltInCsv;
 
 /**
  * Hyperfine constants of alkali Rydberg states, from published measurements scaled with the

@@ -21,6 +21,7 @@ import org.ritzwerk.engine.hyperfine.HyperfineComponent;
 import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.hyperfine.ZeemanComponent;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.refdata.internal.RydbergData;
 
 /**
  * The isotope-specific D lines and hyperfine constants, read through the data context and the

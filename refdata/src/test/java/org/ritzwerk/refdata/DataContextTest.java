@@ -32,6 +32,7 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
+import org.ritzwerk.refdata.internal.RydbergData;
 import org.ritzwerk.testing.ProviderJars;
 
 /**
@@ -378,7 +379,7 @@ class DataContextTest {
 
     /** The built-in Rb-87 quantum-defect file's text, to edit into a user's file. */
     private static String builtInRb87Defects() throws IOException {
-        try (InputStream in = RydbergData.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
+        try (InputStream in = DataContext.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {
             return new String(in.readAllBytes(), StandardCharsets.UTF_8);
         }
     }

@@ -11,6 +11,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.refdata.internal.RydbergData;
 
 /**
  * The built-in ionisation limits, per isotope, against their publications, and the file keys that

@@ -13,11 +13,12 @@ import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Isotope;
 import org.ritzwerk.data.Provenance;
-import org.ritzwerk.atom.Species;
-import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.refdata.internal.NuclearProvider;
 
 /** The built-in nuclear data against the constants and published values named beside each check. */
 class NuclearDataTest {

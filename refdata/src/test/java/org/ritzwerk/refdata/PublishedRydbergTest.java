@@ -11,6 +11,7 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.DecayChannel;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
 import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.internal.RydbergData;
 
 /**
  * The built-in alkali models against published values. Each check names its source; values

@@ -20,6 +20,8 @@ import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
 import org.ritzwerk.engine.rydberg.RydbergException;
+import org.ritzwerk.refdata.internal.RydbergData;
+import org.ritzwerk.refdata.internal.RydbergProvider;
 
 /** The built-in Rydberg data: what the provider offers, how the files read, and how broken files are refused. */
 class RydbergDataTest {

@@ -13,6 +13,7 @@ import org.ritzwerk.engine.rydberg.LadderExcitation;
 import org.ritzwerk.engine.rydberg.Level;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
 import org.ritzwerk.medium.Medium;
+import org.ritzwerk.refdata.internal.RydbergData;
 
 /** Typical uses of the Rydberg API, compiled so they never drift (figures rounded as printed). */
 class RydbergExamplesTest {

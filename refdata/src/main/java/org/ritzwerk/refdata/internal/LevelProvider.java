@@ -1,4 +1,4 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.refdata.internal;
 
 import java.io.IOException;
 import java.io.InputStream;
@@ -13,6 +13,8 @@ import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
+import org.ritzwerk.refdata.LevelListFiles;
+import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * Built-in level lists of species beyond one-electron ions and alkali atoms, whose lines come by
@@ -68,7 +70,7 @@ public final class LevelProvider implements ReferenceDataProvider {
 
     private static LevelList read(String id) {
         String resource = "levels/" + id + ".csv";
-        try (InputStream in = LevelProvider.class.getResourceAsStream(resource)) {
+        try (InputStream in = LevelProvider.class.getResourceAsStream(BuiltInCsv.RESOURCES + resource)) {
             if (in == null) {
                 throw new IllegalStateException("built-in level file missing from the jar: " + resource);
             }

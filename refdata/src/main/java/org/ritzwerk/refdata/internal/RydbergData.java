@@ -1,4 +1,4 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.refdata.internal;
 
 import java.io.IOException;
 import java.io.InputStream;
@@ -21,6 +21,12 @@ import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.AlkaliHyperfine;
+import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.LevelListFiles;
+import org.ritzwerk.refdata.NuclearData;
+import org.ritzwerk.refdata.QuantumDefectFiles;
+import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * Ritzwerk's built-in Rydberg data for Li-6, Li-7, Na-23, K-39, K-40, K-41, Rb-85, Rb-87 and Cs-133
@@ -129,7 +135,7 @@ public final class RydbergData {
      * (the last l of an element serves every higher l); the last column, how the row was checked, is
      * free text.
      */
-    static Map<Integer, ModelPotential> readPotentials() {
+    public static Map<Integer, ModelPotential> readPotentials() {
         String resource = "rydberg/model-potentials.csv";
         Map<Integer, List<ModelPotential.Parameters>> sets = new LinkedHashMap<>();
         Map<Integer, double[]> heads = new LinkedHashMap<>();
@@ -169,7 +175,7 @@ public final class RydbergData {
     }
 
     private static InputStream open(String resource) {
-        InputStream in = RydbergData.class.getResourceAsStream(resource);
+        InputStream in = RydbergData.class.getResourceAsStream(BuiltInCsv.RESOURCES + resource);
         if (in == null) {
             throw new IllegalStateException("built-in data file missing from the jar: " + resource);
         }
@@ -192,7 +198,7 @@ public final class RydbergData {
     }
 
     /** @return the sets by id */
-    Map<String, Object> byId() {
+    public Map<String, Object> byId() {
         Map<String, Object> sets = new LinkedHashMap<>();
         for (Entry e : entries.values()) {
             sets.put(e.content().defects().info().id(), e.content().defects());

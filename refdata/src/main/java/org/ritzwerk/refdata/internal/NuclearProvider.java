@@ -1,4 +1,4 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.refdata.internal;
 
 import java.util.List;
 import java.util.Optional;
@@ -6,6 +6,9 @@ import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
+import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.NuclearData;
+import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * The built-in nuclear data ({@link NuclearData#builtIn()}) as a provider, with its table of

@@ -1,6 +1,8 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.refdata.internal;
 
 import java.util.Optional;
+import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.NuclearData;
 
 /**
  * What Ritzwerk's own nuclear providers (the built-in one and a user's isotope file) know about an
@@ -8,10 +10,10 @@ import java.util.Optional;
  * that go with it (with their own provenance) and the name messages give it. {@link DataContext}
  * asks for them; a third party's isotope table gives its record only (the built-in default
  * isotopes then stay in force below it). Quantum-defect sets need nothing here: their record
- * carries core polarizabilities and the id of their levels set. Package-private; implementations
+ * carries core polarizabilities and the id of their levels set. Not exported; implementations
  * are thread-safe.
  */
-interface SetDetails {
+public interface SetDetails {
 
     /**
      * @param dataSetId the id of a {@link org.ritzwerk.data.DataKind#NUCLEAR} set of this provider

@@ -1,4 +1,4 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.refdata.internal;
 
 import java.io.IOException;
 import java.io.InputStream;
@@ -14,6 +14,8 @@ import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
+import org.ritzwerk.refdata.LineListFiles;
+import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * Built-in calibration-lamp line sets in air (Hg I, Ne I, Ar I, Kr I, Xe I) with the wavelengths
@@ -72,7 +74,7 @@ public final class LampProvider implements ReferenceDataProvider {
 
     private static LineList read(String id) {
         String resource = "lamps/" + id + ".csv";
-        try (InputStream in = LampProvider.class.getResourceAsStream(resource)) {
+        try (InputStream in = LampProvider.class.getResourceAsStream(BuiltInCsv.RESOURCES + resource)) {
             if (in == null) {
                 throw new IllegalStateException("built-in lamp file missing from the jar: " + resource);
             }

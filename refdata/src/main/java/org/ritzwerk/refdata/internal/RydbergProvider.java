@@ -1,10 +1,11 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.refdata.internal;
 
 import java.util.List;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
+import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * The built-in Rydberg data ({@link RydbergData}) as a provider: quantum-defect sets

@@ -1,4 +1,4 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.refdata.internal;
 
 import java.io.BufferedReader;
 import java.io.IOException;
@@ -10,6 +10,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * A built-in CSV table in the project's simple form: a first line {@code # FORMAT 1},
@@ -20,14 +21,21 @@ import java.util.Map;
  * @param header the header's keys and values, in file order
  * @param rows   the data rows
  */
-record BuiltInCsv(Map<String, String> header, List<Row> rows) {
+public record BuiltInCsv(Map<String, String> header, List<Row> rows) {
+
+    /**
+     * The folder of the built-in data files in the refdata jar ({@code lamps/}, {@code levels/},
+     * {@code rydberg/}, ... below it), absolute, for {@link Class#getResourceAsStream}.
+     */
+    public static final String RESOURCES = "/org/ritzwerk/refdata/";
+
 
     /**
      * @param number 1-based line number
      * @param raw    the line as read
      * @param f      its fields
      */
-    record Row(int number, String raw, String[] f) {
+    public record Row(int number, String raw, String[] f) {
     }
 
     /**
@@ -40,7 +48,7 @@ record BuiltInCsv(Map<String, String> header, List<Row> rows) {
      * @return the header and rows
      * @throws ReferenceDataException naming the file and line of the first break of the form
      */
-    static BuiltInCsv read(InputStream in, String name, String format, List<String> columns, boolean lastFree,
+    public static BuiltInCsv read(InputStream in, String name, String format, List<String> columns, boolean lastFree,
             List<String> requiredKeys) {
         List<Row> rows = new ArrayList<>();
         Map<String, String> header = new LinkedHashMap<>();
@@ -91,7 +99,7 @@ record BuiltInCsv(Map<String, String> header, List<Row> rows) {
     }
 
     /** @return the error for a line of a built-in file, quoting the line */
-    static ReferenceDataException bad(String name, int number, String reason, String line) {
+    public static ReferenceDataException bad(String name, int number, String reason, String line) {
         return new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, name + ":" + number + ": " + reason
                 + "\n    " + line);
     }

@@ -1,4 +1,4 @@
-package org.ritzwerk.refdata;
+package org.ritzwerk.refdata.internal;
 
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -23,6 +23,9 @@ import org.ritzwerk.engine.hydrogenic.LineTable;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.NuclearData;
+import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * Computed data sets: the levels and lines (n &lt;= 10, QED tier) of the one-electron ion of every
