@@ -60,18 +60,6 @@ final class LevelSets {
     }
 
     /**
-     * @param levels level lists
-     * @return line sources giving their Ritz lines (E1 rules)
-     */
-    static LineSources sources(List<RitzLevels> levels) {
-        LineSources sources = LineSources.none();
-        for (RitzLevels set : levels) {
-            sources = sources.withLevels(set);
-        }
-        return sources;
-    }
-
-    /**
      * @param data    the data context (each species' companion line list of A values)
      * @param levels  level lists
      * @param lsRules whether the LS-coupling rules apply where both levels give a term

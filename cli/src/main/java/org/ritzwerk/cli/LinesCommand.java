@@ -171,7 +171,8 @@ final class LinesCommand implements Callable<Integer> {
         }
         LineQuery.Progress progress = progress();
         LineSet lines = LineSet.concat(List.of(query.withMultiplets(multiplets).run(ionSources, progress),
-                query.withMaxL(lMax).run(alkaliSources, progress), query.run(LevelSets.sources(data.context(), levelSets.levels(), !intercombination))))
+                query.withMaxL(lMax).run(alkaliSources, progress),
+                query.run(LevelSets.sources(data.context(), levelSets.levels(), !intercombination))))
                 .sortedByFallingFrequency();
         // Lines of level lists carry the Ritz wavelength's standard uncertainty: a column for it then.
         boolean ritz = !levelSets.levels().isEmpty();
