@@ -18,10 +18,12 @@ import org.ritzwerk.engine.identify.LineCatalog;
 import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.engine.identify.ShiftSearch;
 import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.plasma.PlasmaEstimate;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.DataLines;
 import org.ritzwerk.refdata.PeakFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -57,8 +59,9 @@ final class IdentifyCommand implements Callable<Integer> {
     Path peaksFile;
 
     @Option(names = "--species", paramLabel = "SPECIES",
-            description = "Species whose lines the engine computes: one-electron ions (\"H I\", D, \"He II\") and "
-                    + "alkali atoms (\"Rb-87 I\", \"Cs I\", ...). Repeatable.")
+            description = "Species whose lines the engine computes: one-electron ions (\"H I\", D, \"He II\"), "
+                    + "alkali atoms (\"Rb-87 I\", \"Cs I\", ...) and species with a level list (\"He I\"; Ritz lines). "
+                    + "Repeatable.")
     List<String> species = new ArrayList<>();
 
     @Option(names = "--lines", paramLabel = "SET",
@@ -278,8 +281,14 @@ final class IdentifyCommand implements Callable<Integer> {
         if (excitationTemperature != null) {
             builder.excitationTemperature(excitationTemperature);
         }
-        if (!species.isEmpty()) {
-            Ions.Atoms atoms = Ions.atoms(data.context(), species, model);
+        LevelSets.Split levelSets = LevelSets.split(data.context(), species);
+        for (var levels : levelSets.levels()) {
+            // Ritz lines under the E1 and LS rules, with the context's A values (He I: lines-he-i)
+            builder.lineSet(LineSet.ofRitz(DataLines.ritzLines(data.context(), levels.species()).withLsRules(true)
+                    .compute(levels)));
+        }
+        if (!levelSets.others().isEmpty()) {
+            Ions.Atoms atoms = Ions.atoms(data.context(), levelSets.others(), model);
             for (AlkaliAtom atom : atoms.alkalis()) {
                 builder.alkali(atom, nMax, Progress.on(spec.commandLine().getErr(), "identify: "
                         + atom.species().notation() + " lines"));

@@ -8,6 +8,7 @@ import org.ritzwerk.engine.lines.LineSources;
 import org.ritzwerk.engine.ritz.LevelDesignation;
 import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.DataLines;
 
 /**
  * Species of --species that have a level list in the data context (He I built in, or a user's
@@ -59,13 +60,16 @@ final class LevelSets {
     }
 
     /**
-     * @param levels level lists
-     * @return line sources giving their Ritz lines (E1 rules)
+     * @param data    the data context (each species' companion line list of A values)
+     * @param levels  level lists
+     * @param lsRules whether the LS-coupling rules apply where both levels give a term
+     * @return line sources giving their Ritz lines (E1 rules, LS rules if asked) with the A values
+     *         of the context's companion line list ({@link DataLines#ritzLines})
      */
-    static LineSources sources(List<RitzLevels> levels) {
+    static LineSources sources(DataContext data, List<RitzLevels> levels, boolean lsRules) {
         LineSources sources = LineSources.none();
         for (RitzLevels set : levels) {
-            sources = sources.withLevels(set);
+            sources = sources.withLevels(set, DataLines.ritzLines(data, set.species()).withLsRules(lsRules));
         }
         return sources;
     }

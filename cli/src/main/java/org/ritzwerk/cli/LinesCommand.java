@@ -96,6 +96,11 @@ final class LinesCommand implements Callable<Integer> {
             description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla (0 to 1000).")
     Double fieldTesla;
 
+    @Option(names = "--intercombination",
+            description = "Level lists (He I): also the lines the LS-coupling rules forbid where both levels give a "
+                    + "term (intercombination lines between singlets and triplets); by default only the E1 and LS rules' lines.")
+    boolean intercombination;
+
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
@@ -125,6 +130,8 @@ final class LinesCommand implements Callable<Integer> {
         rules.refuseUnless("--multiplets", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron"
                 + " ion; alkali lines are listed by fine-structure level)");
         rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion)");
+        rules.refuseUnless("--intercombination", !levelSets.levels().isEmpty(), "without a species with a level list in"
+                + " --species (it lets through the level lists' lines that the LS-coupling rules forbid)");
         if (hyperfine || fieldTesla != null) {
             return hyperfine(atoms, rules);
         }
@@ -164,9 +171,12 @@ final class LinesCommand implements Callable<Integer> {
         }
         LineQuery.Progress progress = progress();
         LineSet lines = LineSet.concat(List.of(query.withMultiplets(multiplets).run(ionSources, progress),
-                query.withMaxL(lMax).run(alkaliSources, progress), query.run(LevelSets.sources(levelSets.levels()))))
+                query.withMaxL(lMax).run(alkaliSources, progress),
+                query.run(LevelSets.sources(data.context(), levelSets.levels(), !intercombination))))
                 .sortedByFallingFrequency();
-        Table output = new Table(List.of(
+        // Lines of level lists carry the Ritz wavelength's standard uncertainty: a column for it then.
+        boolean ritz = !levelSets.levels().isEmpty();
+        List<Table.Column> columns = new java.util.ArrayList<>(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),
                 Table.Column.text("lower", "lower"),
@@ -180,15 +190,26 @@ final class LinesCommand implements Callable<Integer> {
                 Table.Column.number("einstein_a_per_s", "A s-1", "%.4e"),
                 Table.Column.number("oscillator_strength", "f", "%.4e"),
                 Table.Column.number("line_strength_au", "S (e a0)^2", "%.4e"),
-                Table.Column.text("model", "model")), spec.commandLine().getOut(), format);
+                Table.Column.text("model", "model")));
+        if (ritz) {
+            columns.add(6, Table.Column.number("uncertainty_nm", "u nm", "%.1e"));
+        }
+        Table output = new Table(columns, spec.commandLine().getOut(), format);
         for (int i = 0; i < lines.size(); i++) {
             double vacuumMetres = lines.vacuumWavelengthMetres(i);
             double airMetres = AlkaliTables.air(vacuumMetres);
-            output.add(lines.species(i).notation(), lines.upperLabel(i).orElse(null), lines.lowerLabel(i).orElse(null),
+            List<Object> row = new java.util.ArrayList<>(java.util.Arrays.asList(lines.species(i).notation(),
+                    lines.upperLabel(i).orElse(null), lines.lowerLabel(i).orElse(null),
                     lines.name(i), (air ? airMetres : vacuumMetres) * 1e9, (air ? vacuumMetres : airMetres) * 1e9,
                     lines.wavenumberPerCm(i), lines.frequencyHz(i), lines.einsteinA(i).orElse(Double.NaN),
                     lines.oscillatorStrength(i).orElse(Double.NaN), lines.lineStrengthAtomicUnits(i).orElse(Double.NaN),
-                    lines.source(i).model());
+                    lines.source(i).model()));
+            if (ritz) {
+                // the vacuum value's uncertainty; in air it is smaller by the index (1.0003), below the digits shown
+                row.add(6, lines.vacuumWavelengthUncertaintyMetres(i).isPresent()
+                        ? lines.vacuumWavelengthUncertaintyMetres(i).getAsDouble() * 1e9 : null);
+            }
+            output.add(row.toArray());
         }
         output.finish();
         return 0;

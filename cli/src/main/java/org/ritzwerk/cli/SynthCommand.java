@@ -26,6 +26,7 @@ import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.ContinuumFiles;
 import org.ritzwerk.refdata.DataFileException;
+import org.ritzwerk.refdata.DataLines;
 import org.ritzwerk.refdata.OutputFiles;
 import org.ritzwerk.refdata.SpectrumLineFiles;
 import org.ritzwerk.refdata.SyntheticSpectrumFiles;
@@ -40,6 +41,7 @@ import picocli.CommandLine.Spec;
         mixinStandardHelpOptions = true,
         header = "Render a synthetic emission spectrum.",
         description = "Render a synthetic emission spectrum: the n -> n' lines of one-electron ions (and the "
+                + "Ritz lines with A of species with a level list such as He I, the "
                 + "lines of alkali atoms, and line lists with --lines), upper levels populated by "
                 + "Boltzmann's law at --temperature (which also sets the Doppler width), seen through a "
                 + "Gaussian instrument of --resolving-power, integrated over each pixel, scaled so the "
@@ -219,8 +221,9 @@ final class SynthCommand implements Callable<Integer> {
             option("--electron-density", () -> builder.electronDensity(electronDensity));
         }
         Map<Integer, Double> abundance = abundances();
-        Ions.Atoms atoms = ions.species.isEmpty() ? new Ions.Atoms(List.of(), List.of())
-                : Ions.atoms(data.context(), ions.species, ions.model);
+        LevelSets.Split levelSets = LevelSets.split(data.context(), ions.species);
+        Ions.Atoms atoms = levelSets.others().isEmpty() ? new Ions.Atoms(List.of(), List.of())
+                : Ions.atoms(data.context(), levelSets.others(), ions.model);
         List<Ions.Ion> resolved = atoms.ions();
         OptionRules rules = new OptionRules(spec);
         String noIon = "without a one-electron ion in --species (";
@@ -230,7 +233,7 @@ final class SynthCommand implements Callable<Integer> {
                 + " lines)");
         rules.refuseUnless("--n-max", !ions.species.isEmpty(), "without --species (--lines lists bring their own"
                 + " lines)");
-        if (resolved.isEmpty() && atoms.alkalis().isEmpty() && lineSets.isEmpty()) {
+        if (resolved.isEmpty() && atoms.alkalis().isEmpty() && levelSets.levels().isEmpty() && lineSets.isEmpty()) {
             throw new OptionException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
                     + " or both");
         }
@@ -245,8 +248,17 @@ final class SynthCommand implements Callable<Integer> {
                         + " alkali atoms; --abundance counts its neutral atoms");
             }
         }
+        for (var levels : levelSets.levels()) {
+            builder.levels(levels, DataLines.ritzLines(data.context(), levels.species()),
+                    abundance.getOrDefault(levels.species().z(), 1.0), data.context().nucleus(levels.species()));
+            if (electronDensity != null) {
+                spec.commandLine().getErr().println("note: " + levels.species().notation() + ": no ionisation balance"
+                        + " for level lists; --abundance counts its atoms of that stage");
+            }
+        }
         for (int z : abundance.keySet()) {
             if (resolved.stream().noneMatch(ion -> ion.species().z() == z)
+                    && levelSets.levels().stream().noneMatch(levels -> levels.species().z() == z)
                     && atoms.alkalis().stream().noneMatch(atom -> atom.species().z() == z)) {
                 throw new OptionException("--abundance names " + Elements.symbol(z)
                         + ", which is not among --species");

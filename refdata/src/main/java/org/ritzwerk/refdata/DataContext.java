@@ -347,6 +347,32 @@ public final class DataContext {
     }
 
     /**
+     * The companion line list that gives a level list's Ritz lines their transition
+     * probabilities: the {@link DataKind#LINES} set of highest precedence that covers the species
+     * and gives at least one line an Einstein A with both level labels (for He I the built-in
+     * {@code lines-he-i}; a user's line list with labels and A, given as a file, comes first).
+     *
+     * @param species a species with a level list
+     * @return that line list; empty when no line list of the context gives A by level labels
+     * @throws ReferenceDataException when the listed set does not load
+     */
+    public Optional<LineList> transitionProbabilities(Species species) {
+        Objects.requireNonNull(species, "species");
+        for (DataRegistry.Listing listing : registry.find(DataKind.LINES, species)) {
+            DataSet set = registry.load(listing.info().id());
+            if (set instanceof LineList list) {
+                for (int i = 0; i < list.size(); i++) {
+                    if (list.einsteinA(i).isPresent() && list.lower(i) != null && list.upper(i) != null
+                            && list.species(i).z() == species.z() && list.species(i).charge() == species.charge()) {
+                        return Optional.of(list);
+                    }
+                }
+            }
+        }
+        return Optional.empty();
+    }
+
+    /**
      * @return the species of every level list in this context other than one-electron ions' and
      *         alkali atoms' (those have their own models), ordered by Z and charge; immutable
      */

@@ -2,12 +2,15 @@ package org.ritzwerk.refdata;
 
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.lines.LineSources;
 import org.ritzwerk.engine.ritz.RitzLevels;
+import org.ritzwerk.engine.ritz.RitzLines;
 
 /**
  * Line sources for the engine's {@link org.ritzwerk.engine.lines.LineQuery} from a
@@ -28,7 +31,8 @@ public final class DataLines {
      * @param tier    the level model of the one-electron ions
      * @return the sources: each ion with its context nucleus in that tier, each alkali atom as the
      *         context assembles it, each other species' level list ({@link DataContext#levelList})
-     *         giving its lines by the Ritz combination principle under the E1 rules
+     *         giving its lines by the Ritz combination principle under the E1 rules, with the A
+     *         values of its companion line list ({@link #ritzLines})
      * @throws IllegalArgumentException naming a species that is neither
      * @throws ReferenceDataException   when the context has no data for a species' isotope
      */
@@ -42,10 +46,7 @@ public final class DataLines {
             } else if (s.charge() == 0 && context.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z())) {
                 sources = sources.withAlkali(context.alkaliAtom(s));
             } else if (context.levelList(s).isPresent()) {
-                LevelList list = context.levelList(s).get();
-                Species own = list.info().species().stream().filter(c -> c.z() == s.z() && c.charge() == s.charge())
-                        .findFirst().orElse(s);
-                sources = sources.withLevels(RitzLevels.of(list, own).withSpecies(s));
+                sources = sources.withLevels(levels(context, s), ritzLines(context, s));
             } else {
                 throw new IllegalArgumentException(s.notation() + " has no line source in this data context: it"
                         + " computes one-electron ions (H I, D I, He II, C VI, ...), the neutral alkali atoms "
@@ -55,6 +56,32 @@ public final class DataLines {
             }
         }
         return sources;
+    }
+
+    /**
+     * @param context where the data comes from
+     * @param species a species with a level list in the context
+     * @return its levels ({@link DataContext#levelList}), labelled with {@code species}
+     * @throws IllegalArgumentException when the context has no level list for it
+     */
+    public static RitzLevels levels(DataContext context, Species species) {
+        LevelList list = context.levelList(species).orElseThrow(() -> new IllegalArgumentException(
+                species.notation() + " has no level list in this data context"));
+        Species own = list.info().species().stream().filter(c -> c.z() == species.z() && c.charge() == species.charge())
+                .findFirst().orElse(species);
+        return RitzLevels.of(list, own).withSpecies(species);
+    }
+
+    /**
+     * @param context where the data comes from
+     * @param species a species with a level list
+     * @return the Ritz job for its lines: E1 rules, and the A values of the companion line list
+     *         ({@link DataContext#transitionProbabilities}) where the context has one
+     */
+    public static RitzLines ritzLines(DataContext context, Species species) {
+        RitzLines job = RitzLines.defaults();
+        Optional<LineList> companion = context.transitionProbabilities(species);
+        return companion.isPresent() ? job.withEinsteinA(companion.get()) : job;
     }
 
     /**

@@ -18,10 +18,12 @@ import org.apache.commons.math4.legacy.linear.SingularMatrixException;
  * level is held at its given energy, and the energies E minimise
  * {@code chi^2 = sum_k ((sigma_k - E_upper(k) + E_lower(k)) / u_k)^2}. Their covariance is
  * {@code (A^T W A)^-1}; every line's Ritz wavenumber and its standard uncertainty follow from the
- * energies and that covariance, correlations included. This is the method of A. Kramida, Comput.
- * Phys. Commun. 182, 419-434 (2011), doi:10.1016/j.cpc.2010.09.010 (citation from memory): a
- * linear least-squares system of the levels, the Ritz wavelengths' uncertainties from the levels'
- * covariance, and lines that alone determine a level told apart (our naming and formats).
+ * energies and that covariance, correlations included. This is weighted linear least squares
+ * applied to the Ritz combination principle, the way evaluators of atomic spectra optimise level
+ * energies (common practice): the normal equations {@code (A^T W A) E = A^T W sigma}, A the
+ * incidence matrix of lines and levels (+1 upper, -1 lower), and the first-order propagation of
+ * the covariance to each Ritz wavenumber, {@code u^2 = a^T (A^T W A)^-1 a} (JCGM 100:2008, eq. 13);
+ * lines that alone determine a level are told apart (our naming and formats).
  *
  * <p>Solved with Apache Commons Math's QR decomposition of the weighted design matrix; the
  * covariance by its Cholesky decomposition of {@code A^T W A}.

@@ -20,6 +20,9 @@ import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.plasma.IonisationBalance;
 import org.ritzwerk.engine.profile.BalmerStark;
 import org.ritzwerk.engine.profile.Broadening;
+import org.ritzwerk.engine.ritz.RitzLevels;
+import org.ritzwerk.engine.ritz.RitzLines;
+import org.ritzwerk.engine.ritz.RitzTransitions;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.RydbergException;
@@ -44,6 +47,8 @@ import org.ritzwerk.quantity.Unit;
  * broadened and shifted like the rest.</li>
  * <li>Neutral alkali atoms ({@link Builder#alkali}): their lines between the quantum-defect
  * model's levels, populated by Boltzmann's law over the same levels.</li>
+ * <li>Any atom with a level list ({@link Builder#levels}, He I say): its Ritz lines that carry an
+ * Einstein A, populated by Boltzmann's law over the list's levels.</li>
  * <li>Widths: Doppler (Gaussian, from the temperature and the emitter's mass), the
  * instrument's Gaussian response, and a Lorentzian that is the sum of a collisional FWHM given
  * by the caller, natural widths when asked ({@link Builder#naturalWidths}: each shell's total
@@ -308,7 +313,7 @@ public final class Scene {
     public static final class Builder {
         private final PixelGrid grid;
         private final List<HydrogenLikeEmitter> ions = new ArrayList<>();
-        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter, RelativeSet or RelativeColumns
+        private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter, LevelEmitter, RelativeSet or RelativeColumns
         private double temperature = 10_000;
         private double electronDensity = Double.NaN;
         private double velocity;
@@ -418,6 +423,43 @@ public final class Scene {
             positive("abundance of " + atom.species().notation(), abundance);
             lists.add(new AlkaliEmitter(atom, abundance,
                     nucleus.massKg() + atom.species().z() * PhysicalConstants.ELECTRON_MASS.value()));
+            return this;
+        }
+
+        /**
+         * Any atom from its level list (He I, say): the lines the Ritz job gives between the
+         * levels (E1 rules, its window if any) that carry an Einstein A, near the grid, each with
+         * the photon rate abundance (2 J_u + 1) A exp(-E_u / kT) / U, U the sum of
+         * (2 J + 1) exp(-E / kT) over the levels whose J is known, energies above the list's
+         * lowest level (Boltzmann's law, optically thin, as for the alkali atoms; no ionisation
+         * balance). Lines without A are left out. Labelled {@code He I 1s3d 3D3 - 1s2p 3P2}.
+         *
+         * @param levels    the levels (energies in cm^-1 above the ground level)
+         * @param job       the Ritz job giving the lines and their A values
+         *                  ({@link RitzLines#withEinsteinA})
+         * @param abundance its number (or number density) of atoms of that stage, positive
+         * @param nucleus   its nucleus, for the atom's mass (nucleus plus bound electrons) in the
+         *                  Doppler width
+         * @return this builder
+         * @throws IllegalArgumentException when no line of the levels has an A
+         */
+        public Builder levels(RitzLevels levels, RitzLines job, double abundance, Nucleus nucleus) {
+            Objects.requireNonNull(levels, "levels");
+            Objects.requireNonNull(job, "job");
+            Objects.requireNonNull(nucleus, "nucleus");
+            positive("abundance of " + levels.species().notation(), abundance);
+            RitzTransitions lines = job.compute(levels);
+            boolean any = false;
+            for (int i = 0; i < lines.size() && !any; i++) {
+                any = lines.einsteinA(i).isPresent();
+            }
+            if (!any) {
+                throw new IllegalArgumentException(levels.species().notation() + ": no line between its levels has"
+                        + " a transition probability (give a companion line list with A and level labels)");
+            }
+            Species species = levels.species();
+            lists.add(new LevelEmitter(lines, abundance,
+                    nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value()));
             return this;
         }
 
@@ -717,6 +759,8 @@ public final class Scene {
                     out.add(fixed);
                 } else if (entry instanceof AlkaliEmitter alkali) {
                     out.add(alkaliLines(alkali));
+                } else if (entry instanceof LevelEmitter levels) {
+                    out.add(levelLines(levels));
                 } else if (entry instanceof RelativeColumns columns) {
                     if (Double.isNaN(ionScale)) {
                         ionScale = strongestIonLine();
@@ -766,6 +810,47 @@ public final class Scene {
                 labels[i] = atom.species().notation() + " " + line.label();
             }
             return new ListEmitter(atom.species().notation(), nm, photons, e.massKg(), i -> labels[i]);
+        }
+
+        /** A level list's lines with A as fixed photon rates (Boltzmann populations over its levels). */
+        private ListEmitter levelLines(LevelEmitter e) {
+            RitzTransitions lines = e.lines();
+            RitzLevels levels = lines.levels();
+            double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100 / (PhysicalConstants.K * temperature);
+            double lowest = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < levels.size(); i++) {
+                lowest = Math.min(lowest, levels.energyPerCm(i));
+            }
+            double partition = 0;
+            for (int i = 0; i < levels.size(); i++) {
+                if (levels.designation(i).hasJ()) {
+                    partition += (levels.designation(i).twoJ() + 1)
+                            * Math.exp(-(levels.energyPerCm(i) - lowest) * hcPerCmOverKt);
+                }
+            }
+            double beta = Math.abs(velocity) / PhysicalConstants.C;
+            double loNm = grid.edge(0) * 0.98 * (1 - beta);
+            double hiNm = grid.edge(grid.pixels()) * 1.02 * (1 + beta);
+            int n = 0;
+            double[] nm = new double[lines.size()];
+            double[] photons = new double[lines.size()];
+            String[] labels = new String[lines.size()];
+            String prefix = levels.species().notation() + " ";
+            for (int i = 0; i < lines.size(); i++) {
+                double vacuumNm = lines.vacuumWavelengthNm(i);
+                if (lines.einsteinA(i).isEmpty() || vacuumNm < loNm || vacuumNm > hiNm) {
+                    continue;
+                }
+                int u = lines.upper(i);
+                nm[n] = vacuumNm;
+                photons[n] = e.abundance() * (levels.designation(u).twoJ() + 1) * lines.einsteinA(i).getAsDouble()
+                        * Math.exp(-(levels.energyPerCm(u) - lowest) * hcPerCmOverKt) / partition;
+                labels[n] = prefix + levels.label(u) + " - " + levels.label(lines.lower(i));
+                n++;
+            }
+            String[] kept = Arrays.copyOf(labels, n);
+            return new ListEmitter(levels.species().notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n),
+                    e.massKg(), i -> kept[i]);
         }
 
         /** The strongest one-electron line's photon rate at abundance 1, or 0 without ions. */
@@ -988,6 +1073,9 @@ public final class Scene {
     }
 
     private record AlkaliEmitter(AlkaliAtom atom, double abundance, double massKg) {
+    }
+
+    private record LevelEmitter(RitzTransitions lines, double abundance, double massKg) {
     }
 
 

@@ -8,9 +8,9 @@ import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
-import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
 import org.ritzwerk.refdata.LevelListFiles;
@@ -20,14 +20,17 @@ import org.ritzwerk.refdata.ReferenceDataException;
  * Built-in level lists of species beyond one-electron ions and alkali atoms, whose lines come by
  * the Ritz combination principle: He I ({@code levels-he-i}, n up to 4, singlets and triplets). Each
  * row is from memory with its independent check named in its note (see {@code levels/README.md}).
- * Thread-safe; files are read on first use.
+ * Beside each level list, its companion line list of transition probabilities
+ * ({@code lines-he-i}: A between the same level labels, by the Coulomb approximation from the level
+ * energies, the lines to the ground level from memory; see {@code levels/README.md}), which
+ * {@link DataContext#transitionProbabilities} finds. Thread-safe; files are read on first use.
  */
 public final class LevelProvider implements ReferenceDataProvider {
 
-    private static final List<String> FILES = List.of("levels-he-i");
+    private static final List<String> FILES = List.of("levels-he-i", "lines-he-i");
 
     /** The sets, read from the jar on first use (listing needs their headers anyway). */
-    private volatile Map<String, LevelList> sets;
+    private volatile Map<String, DataSet> sets;
 
     @Override
     public String id() {
@@ -55,10 +58,10 @@ public final class LevelProvider implements ReferenceDataProvider {
         return sets().get(dataSetId);
     }
 
-    private Map<String, LevelList> sets() {
-        Map<String, LevelList> read = sets;
+    private Map<String, DataSet> sets() {
+        Map<String, DataSet> read = sets;
         if (read == null) {
-            Map<String, LevelList> all = new LinkedHashMap<>();
+            Map<String, DataSet> all = new LinkedHashMap<>();
             for (String id : FILES) {
                 all.put(id, read(id));
             }
@@ -68,13 +71,14 @@ public final class LevelProvider implements ReferenceDataProvider {
         return read;
     }
 
-    private static LevelList read(String id) {
+    private static DataSet read(String id) {
         String resource = "levels/" + id + ".csv";
         try (InputStream in = LevelProvider.class.getResourceAsStream(BuiltInCsv.RESOURCES + resource)) {
             if (in == null) {
                 throw new IllegalStateException("built-in level file missing from the jar: " + resource);
             }
-            return LevelListFiles.read(in, resource);
+            return id.startsWith("lines-") ? LineListFiles.read(in, resource, DataKind.LINES)
+                    : LevelListFiles.read(in, resource);
         } catch (IOException e) {
             throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
         }

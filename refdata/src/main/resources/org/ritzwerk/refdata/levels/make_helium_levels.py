@@ -10,11 +10,13 @@ Published values the checks use (read in the papers' abstracts):
   IE(1s2 1S0)  = 5 945 204 290(33) MHz   Morton, Wu and Drake, Can. J. Phys. 84, 83 (2006)
   IE(1s2s 3S1) = 1 152 842 742.728(6) MHz  G. W. F. Drake, A. T. Bondy, O. P. Hallett and
                  B. C. Najem, arXiv:2510.17495 (2025) (theory for the triplet spectrum)
+  IE(1s2s 1S0) = 960 332 040.533(10)(20) MHz  J. Chi, H. Fang, Y.-H. Zhang, L.-Y. Tang and
+                 T.-Y. Shi, arXiv:2606.04768 (2026) (read in the abstract)
   c = 299 792 458 m/s (exact, SI).
   R_inf = 109 737.315 681 60 cm-1 and m_e = 5.485 799 090 65e-4 u (CODATA 2018), the 4He atomic
   mass 4.002 603 254 13 u (AME2020, this project's nuclear/isotopes.csv).
 Checks:
-  1  the 1s2s 3S1 level against IE(1s2 1S0) - IE(1s2s 3S1) from the two papers above;
+  1  the 1s2s 3S1 and 1s2s 1S0 levels against IE(1s2 1S0) - IE(1s2s) from the papers above;
   2  lines: Ritz air wavelengths against the Handbook's strong lines (list LINES below), within
      2.5e-4 nm (one line) or 4e-4 nm (a blend of fine-structure components);
   3  fine structure: the 3P and 3D splittings scale as n^-3 between n = 2, 3 and 4 within 15 %.
@@ -26,6 +28,7 @@ C_MHZ_PER_CM = 29979.2458
 IE = 5945204290 / C_MHZ_PER_CM
 IE_U = 33 / C_MHZ_PER_CM
 IE_2S3S = 1152842742.728 / C_MHZ_PER_CM
+IE_2S1S = 960332040.533 / C_MHZ_PER_CM
 R_INF = 109737.31568160
 ME = 5.48579909065e-4
 M_NUCLEUS = 4.00260325413 - 2 * ME
@@ -109,6 +112,10 @@ def main():
     out.append("check 1: 1s2s 3S1 minus (IE - IE(2s 3S1)) = %+.7f cm-1 (IE known to %.4f)" % (d, IE_U))
     assert abs(d) < 3 * IE_U, "1s2s 3S1 does not agree with the published ionization energies"
     notes["1s2s 3S1"] = "check 1 %+.7f cm-1" % d
+    d = energy["1s2s 1S0"] - (IE - IE_2S1S)
+    out.append("check 1: 1s2s 1S0 minus (IE - IE(2s 1S0)) = %+.7f cm-1 (IE known to %.4f)" % (d, IE_U))
+    assert abs(d) < 3 * IE_U, "1s2s 1S0 does not agree with the published ionization energies"
+    notes["1s2s 1S0"] = "check 1 %+.5f cm-1" % d
     for label, _, e, s, n in LEVELS:
         if s:
             out.append("defect %-9s n = %d: %.6f" % (label, n, defect(n, float(e))))
@@ -151,7 +158,7 @@ def main():
         "# ritzwerk-levels 1",
         "# id: levels-he-i",
         "# title: He I levels n <= 4 (singlets and triplets), for Ritz lines",
-        "# source: NIST Atomic Spectra Database, He I energy levels (G. W. F. Drake and W. C. Martin, Can. J. Phys. 76, 679 (1998); D. C. Morton, Q. Wu and G. W. F. Drake, Can. J. Phys. 84, 83 (2006)), from memory; checked against the ionization energies of Morton, Wu and Drake (2006) and Drake, Bondy, Hallett and Najem, arXiv:2510.17495 (2025)",
+        "# source: NIST Atomic Spectra Database, He I energy levels (G. W. F. Drake and W. C. Martin, Can. J. Phys. 76, 679 (1998); D. C. Morton, Q. Wu and G. W. F. Drake, Can. J. Phys. 84, 83 (2006)), from memory; checked against the ionization energies of Morton, Wu and Drake (2006), Drake, Bondy, Hallett and Najem, arXiv:2510.17495 (2025) and Chi, Fang, Zhang, Tang and Shi, arXiv:2606.04768 (2026)",
         "# provenance: from-memory",
         "# version: NIST ASD (version not re-checked)",
         "# energy-unit: cm-1",

@@ -1,0 +1,116 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * He I as a first-class species: its Ritz lines with A values (lines-he-i) in {@code lines},
+ * {@code synth} and {@code identify}, end to end.
+ */
+class HeliumCommandsTest {
+
+    private static final JsonMapper JSON = JsonMapper.builder().build();
+
+    @Test
+    void linesGiveAValuesUncertaintiesAndLeaveIntercombinationLinesOutUnlessAsked() {
+        CliTest.Run run = CliTest.run("lines", "--species", "He I", "--from", "585 nm air", "--to", "590 nm air",
+                "--medium", "air", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        List<String> names = new ArrayList<>();
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode row = JSON.readTree(line);
+            names.add(row.get("line").asString());
+            // every line of the level list has a Ritz uncertainty (levels +-5e-5 cm-1: about 2.4e-6 nm here)
+            assertEquals(2.4e-6, row.get("uncertainty_nm").asDouble(), 0.2e-6, line);
+            assertFalse(row.get("einstein_a_per_s").isNull(), line);
+        }
+        // 2p 3P - 3d 3D, six components (587.6 nm); no 1s2p 3P - 1s3d 1D2 intercombination line
+        assertEquals(6, names.size(), names.toString());
+        assertTrue(names.stream().noneMatch(n -> n.endsWith("1D2")), names.toString());
+        CliTest.Run all = CliTest.run("lines", "--species", "He I", "--from", "585 nm air", "--to", "590 nm air",
+                "--medium", "air", "--intercombination", "--format", "csv");
+        assertEquals(0, all.code(), all.err());
+        assertTrue(all.out().contains("\"1s2p 3P2 - 1s3d 1D2\""), all.out());
+        // the option is refused where no level list is asked for
+        CliTest.Run refused = CliTest.run("lines", "--species", "H I", "--from", "400 nm", "--to", "700 nm",
+                "--intercombination");
+        assertEquals(2, refused.code());
+        assertTrue(refused.err().contains("--intercombination"), refused.err());
+        // ions alone keep their columns (no uncertainty column)
+        CliTest.Run ions = CliTest.run("lines", "--species", "H I", "--from", "650 nm", "--to", "660 nm",
+                "--format", "csv");
+        assertFalse(ions.out().contains("uncertainty_nm"), ions.out());
+    }
+
+    @Test
+    void heliumIsSynthesisedAndItsLinesIdentified(@TempDir Path dir) throws IOException {
+        Path truth = dir.resolve("truth.csv");
+        CliTest.Run synth = CliTest.run("synth", "--species", "He I,H I", "--from", "380 nm", "--to", "700 nm",
+                "--temperature", "30000", "--no-noise", "--truth", truth.toString(), "--out",
+                dir.resolve("spectrum.csv").toString());
+        assertEquals(0, synth.code(), synth.err());
+        double strongestHe = 0;
+        String strongestLabel = null;
+        List<String[]> rows = new ArrayList<>();
+        for (String row : Files.readAllLines(truth)) {
+            if (row.startsWith("#") || row.startsWith("wavelength_nm")) {
+                continue;
+            }
+            String[] c = row.split(",");
+            rows.add(c);
+            if (c[4].startsWith("He I") && Double.parseDouble(c[1]) > strongestHe) {
+                strongestHe = Double.parseDouble(c[1]);
+                strongestLabel = c[4];
+            }
+        }
+        // the brightest He I line of a discharge in the visible is 587.6 nm (2p 3P - 3d 3D) (common practice)
+        assertEquals("He I 1s3d 3D3 - 1s2p 3P2", strongestLabel);
+        // peaks at the singlet lines (no fine structure to blend) and the Balmer lines, as measured
+        StringBuilder peaks = new StringBuilder("# ritzwerk-peaks 1\n# id: he-discharge\n# title: synthetic\n"
+                + "# source: ritzwerk synth\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
+                + "# medium: vacuum\nposition,uncertainty,intensity\n");
+        List<String> expected = new ArrayList<>();
+        for (String[] c : rows) {
+            boolean singlet = c[4].startsWith("He I") && !c[4].contains(" 3");
+            boolean balmer = c[4].startsWith("H I");
+            double nm = Double.parseDouble(c[0]);
+            if ((singlet || balmer) && nm > 380 && nm < 700 && Double.parseDouble(c[1]) > 0.01 * strongestHe) {
+                peaks.append(String.format(Locale.ROOT, "%.6f,0.0005,%s%n", nm, c[1]));
+                expected.add(c[4]);
+            }
+        }
+        Path file = dir.resolve("peaks.csv");
+        Files.writeString(file, peaks.toString());
+        CliTest.Run run = CliTest.run("identify", file.toString(), "--species", "He I,H I", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        String[] out = run.out().strip().split("\\R");
+        int helium = 0;
+        for (int i = 0; i < expected.size(); i++) {
+            JsonNode row = JSON.readTree(out[i]);
+            assertEquals("matched", row.get("status").asString(), out[i]);
+            String label = expected.get(i);
+            if (label.startsWith("He I")) {
+                helium++;
+                assertEquals("He I", row.get("species").asString(), out[i]);
+                // synth's truth and identify both name the line "upper - lower"
+                assertEquals(label.substring("He I ".length()), row.get("transition").asString(), out[i]);
+            } else {
+                assertEquals("H I", row.get("species").asString(), out[i]);
+            }
+        }
+        // 396.5, 492.2, 501.6, 504.8, 667.8 nm
+        assertEquals(5, helium, String.join("\n", out));
+    }
+}
