@@ -14,6 +14,7 @@ import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
 import org.ritzwerk.refdata.LevelListFiles;
+import org.ritzwerk.refdata.LineListFiles;
 import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
