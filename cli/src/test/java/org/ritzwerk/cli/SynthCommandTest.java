@@ -340,8 +340,9 @@ class SynthCommandTest {
                 d1 = Double.parseDouble(row.split(",")[1]);
             }
         }
-        org.ritzwerk.engine.rydberg.AlkaliAtom rb = org.ritzwerk.refdata.RydbergData.builtIn()
-                .atom(org.ritzwerk.atom.Species.parse("Rb-87 I"));
+        // the command's atom is the data context's, with the published resonance-line elements
+        org.ritzwerk.engine.rydberg.AlkaliAtom rb = org.ritzwerk.refdata.DataContext.builtIn()
+                .alkaliAtom(org.ritzwerk.atom.Species.parse("Rb-87 I"));
         org.ritzwerk.atom.State g = org.ritzwerk.atom.State.parse("5s1/2");
         org.ritzwerk.atom.State p1 = org.ritzwerk.atom.State.parse("5p1/2");
         org.ritzwerk.atom.State p3 = org.ritzwerk.atom.State.parse("5p3/2");
