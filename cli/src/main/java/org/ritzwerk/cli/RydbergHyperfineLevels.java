@@ -71,8 +71,8 @@ final class RydbergHyperfineLevels {
                         state);
                 if (scaled.isEmpty()) {
                     throw new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
-                            + atom.species().notation() + " (published for the ground and first p levels and the "
-                            + "Rydberg series listed by 'ritzwerk data' as rydberg-hyperfine)");
+                            + atom.species().notation() + " (constants are built in for the ground and first p levels "
+                            + "and, scaled as n*^-3, for the Rydberg series of rydberg-hyperfine.csv)");
                 }
                 constants = scaled.get();
                 levels = context.rydbergHyperfine().fLevels(context, atom.species(), state);
