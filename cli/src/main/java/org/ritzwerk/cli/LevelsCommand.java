@@ -66,9 +66,15 @@ final class LevelsCommand implements Callable<Integer> {
 
     @Option(names = "--hyperfine",
             description = "Alkali isotopes: split the levels with published hyperfine constants (the ground and "
-                    + "first p levels) into their F levels, each with its energy (Casimir formula with A and B) "
-                    + "and g = 2F + 1.")
+                    + "first p levels, and Rydberg series with n*^-3-scaled constants) into their F levels, each "
+                    + "with its energy (Casimir formula with A and B) and g = 2F + 1.")
     boolean hyperfine;
+
+    @Option(names = RydbergHyperfineLevels.STATE_OPTION, paramLabel = "STATE",
+            description = "With --hyperfine: only this alkali level (e.g. 60s1/2, 7s1/2, 5p3/2), split into its F "
+                    + "levels with their shift from the hyperfine-free level in MHz and the A and B used (measured "
+                    + "for the ground and first p levels, scaled as n*^-3 for Rydberg series).")
+    String state;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
@@ -127,6 +133,13 @@ final class LevelsCommand implements Callable<Integer> {
                                     .species().stream().map(org.ritzwerk.atom.Species::notation).toList()));
                 }
             }
+        }
+        if (state != null) {
+            rules.refuseUnless(RydbergHyperfineLevels.STATE_OPTION, hyperfine && alkali && atoms.ions().isEmpty()
+                    && levelSets.levels().isEmpty() && !lifetimes, "without --hyperfine, for other species than alkali "
+                    + "atoms, or with --lifetimes (it lists the F levels of one alkali level)");
+            RydbergHyperfineLevels.print(data.context(), atoms.alkalis(), state, spec.commandLine().getOut(), format);
+            return 0;
         }
         rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion;"
                 + " the model column says where each alkali energy comes from)");
@@ -208,6 +221,9 @@ final class LevelsCommand implements Callable<Integer> {
                     List<AlkaliHyperfine.FLevel> split = hyperfine
                             ? data.context().alkaliHyperfine().fLevels(data.context(), atom.species(), state)
                             : List.of();
+                    if (hyperfine && split.isEmpty()) {
+                        split = data.context().rydbergHyperfine().fLevels(data.context(), atom.species(), state);
+                    }
                     if (split.isEmpty()) {
                         table.add(java.util.Arrays.copyOf(row, columns));
                         continue;

@@ -340,6 +340,7 @@ class SynthCommandTest {
                 d1 = Double.parseDouble(row.split(",")[1]);
             }
         }
+        // the command's atom is the data context's, with the published resonance-line elements
         org.ritzwerk.engine.rydberg.AlkaliAtom rb = org.ritzwerk.refdata.DataContext.builtIn()
                 .alkaliAtom(org.ritzwerk.atom.Species.parse("Rb-87 I"));
         org.ritzwerk.atom.State g = org.ritzwerk.atom.State.parse("5s1/2");

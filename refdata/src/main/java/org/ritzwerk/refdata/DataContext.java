@@ -44,7 +44,10 @@ import org.ritzwerk.refdata.internal.RydbergData;
  * {@link DataKind#LEVELS} set it names (looked up in this context, so whichever provider supplies
  * the record, a user's file, a third party's jar or the built-in data, supplies a whole atom),
  * and R_M computed from this context's nuclear data
- * ({@link QuantumDefectFiles#rydbergPerCm(double)}). The atoms use the Coulomb approximation;
+ * ({@link QuantumDefectFiles#rydbergPerCm(double)}). The atoms use the Coulomb approximation,
+ * except for the low-lying pairs of states with a published dipole element
+ * ({@link #alkaliDipoles()}; {@link AlkaliAtom#withPublishedDipoles}), whose element is the
+ * published one;
  * {@link #modelPotential(Species)} gives the built-in core potential for
  * {@link AlkaliAtom#withModelPotential}.</li>
  * <li><b>Level lists</b> ({@link #levelList(Species)}, {@link #levelSpecies()}): the
@@ -263,7 +266,9 @@ public final class DataContext {
             measured = AlkaliHyperfine.builtIn().withResonanceLevels(species, measured);
         }
         double rydberg = QuantumDefectFiles.rydbergPerCm(isotope(species).atomicMass());
-        return AlkaliAtom.of(defects.withRydbergPerCm(rydberg), measured);
+        AlkaliAtom atom = AlkaliAtom.of(defects.withRydbergPerCm(rydberg), measured);
+        // published elements of low-lying pairs replace the computed ones (AlkaliDipoles)
+        return atom.withPublishedDipoles(alkaliDipoles().elements(atom, species));
     }
 
     private List<MeasuredLevel> measuredLevels(String setId, String levelsId, Species species) {
@@ -290,6 +295,15 @@ public final class DataContext {
      */
     public AlkaliHyperfine alkaliHyperfine() {
         return AlkaliHyperfine.builtIn();
+    }
+
+    /**
+     * @return the built-in published dipole elements of low-lying alkali transitions (built-in only,
+     *         like {@link #alkaliHyperfine()}), which this context's atoms use instead of computed
+     *         ones for exactly those pairs of states
+     */
+    public AlkaliDipoles alkaliDipoles() {
+        return AlkaliDipoles.builtIn();
     }
 
     /**

@@ -244,7 +244,10 @@ public final class RydbergData {
      * @param species a neutral alkali isotope (without mass number: the most abundant one)
      * @return the engine's model of that atom: the quantum defects, the measured levels and the core
      *         polarizabilities of the built-in data, with the isotope's own D-line centroids as its
-     *         first p levels ({@link AlkaliHyperfine#withResonanceLevels})
+     *         first p levels ({@link AlkaliHyperfine#withResonanceLevels}); every dipole element
+     *         computed (the bare model, without the published elements that
+     *         {@link DataContext#alkaliAtom} adds: {@code atom(s).withPublishedDipoles(
+     *         AlkaliDipoles.builtIn().elements(atom(s), s))} gives the same)
      * @throws ReferenceDataException when the species is not covered
      */
     public AlkaliAtom atom(Species species) {
