@@ -12,6 +12,7 @@ import org.ritzwerk.atom.State;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.PublishedDipole;
+import org.ritzwerk.refdata.internal.BuiltInCsv;
 
 /**
  * Published reduced electric-dipole matrix elements of low-lying alkali transitions, which the data
