@@ -437,10 +437,11 @@ public final class StarkMap {
     private void solveOne(double[] fields, int f, int ref, double origin, Path path, double[][] energies,
             double[][] characters) {
         int n = basis.size();
-        double[][] h = hamiltonian(fields[f] / AtomicUnits.FIELD_V_PER_M, origin);
+        double fieldAu = fields[f] / AtomicUnits.FIELD_V_PER_M;
         double[] e = new double[n];
         double[] c = new double[n];
         if (path == Path.DENSE) {
+            double[][] h = hamiltonian(fieldAu, origin);
             EigenDecomposition eigen = new EigenDecomposition(new Array2DRowRealMatrix(h, false));
             double[] values = eigen.getRealEigenvalues();
             Integer[] order = new Integer[n];
@@ -456,7 +457,12 @@ public final class StarkMap {
         } else {
             double[] w = new double[n];
             w[ref] = 1;
-            BandReduction reduction = new BandReduction(h, halfBandwidth, w);
+            double[] diagonal = new double[n];
+            for (int i = 0; i < n; i++) {
+                diagonal[i] = AtomicUnits.hartreeFromPerCm(energiesPerCm[i] - origin);
+            }
+            BandReduction reduction = BandReduction.ofCouplings(diagonal, rows, columns, values, fieldAu, halfBandwidth,
+                    w);
             reduction.reduce();
             double[] d = reduction.diagonal();
             double[] off = reduction.offDiagonal();
