@@ -10,6 +10,7 @@ module org.ritzwerk.engine {
     requires org.apache.commons.math4.legacy.exception;
     requires org.apache.commons.math4.transform;
     requires org.apache.commons.numbers.gamma;
+    requires dev.ludovic.netlib.lapack;
 
     exports org.ritzwerk.engine.calibrate;
     exports org.ritzwerk.engine.convert;

@@ -17,12 +17,15 @@ import org.ritzwerk.engine.stark.StarkMapResult;
 
 /**
  * A Stark map of Rb-87 at m_j = 1/2 with every l in n = 60 to nMax (nMax = 67: 1,008 basis states,
- * half-bandwidth about 30), diagonalised at {@code fields} field values from 0 to 5 V/cm: the
- * engine's path (Givens band reduction, then Commons Math's symmetric tridiagonal
- * {@code EigenDecomposition}) beside the naive baseline, Commons Math's dense symmetric
- * {@code EigenDecomposition} of the whole matrix at each field. The basis, its levels and its
- * couplings are built once in the setup; only the per-field work is timed. Both give the same
- * energies to 1e-9 cm^-1 (StarkAndPairBenchmarksTest). Single-shot timing: one map takes seconds.
+ * half-bandwidth 23), diagonalised at {@code fields} field values up to 5 V/cm: the engine's
+ * paths (Givens band reduction, then LAPACK's tridiagonal {@code DSTEMR} with the characters,
+ * {@code banded}, or {@code DSTERF} for the energies alone, {@code bandedEnergies}) beside the naive
+ * baseline, Commons Math's dense symmetric {@code EigenDecomposition} of the whole matrix at each
+ * field, which accumulates every eigenvector (the engine's earlier banded path, Commons Math's
+ * tridiagonal decomposition, ran at the dense path's speed, ratio 1.04). The basis, its levels and
+ * its couplings are built once in the setup; only the per-field work is timed. The paths give the
+ * same energies to 1e-9 cm^-1 (StarkAndPairBenchmarksTest, StarkMapTest). Single-shot timing: one
+ * map takes seconds. {@code threads} spreads the fields over threads ({@link StarkMap#withThreads}).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.SingleShotTime)
@@ -40,13 +43,18 @@ public class StarkMapBenchmark {
     @Param({"2"})
     public int fields;
 
+    /** Threads per solve (the baseline always uses one). */
+    @Param({"1"})
+    public int threads;
+
     StarkMap map;
     double[] fieldValues;
     org.ritzwerk.atom.State reference;
 
     @Setup
     public void setUp() {
-        map = StarkMap.builder(RubidiumFixture.rubidium()).projection(1).principalRange(60, nMax).build();
+        map = StarkMap.builder(RubidiumFixture.rubidium()).projection(1).principalRange(60, nMax).build()
+                .withThreads(threads);
         fieldValues = new double[fields];
         for (int i = 0; i < fields; i++) {
             fieldValues[i] = 500.0 * (i + 1) / fields;
@@ -60,9 +68,15 @@ public class StarkMapBenchmark {
         return map.solve(fieldValues, reference);
     }
 
-    /** @return the map, dense baseline */
+    /** @return the map's energies only, banded path */
+    @Benchmark
+    public StarkMapResult bandedEnergies() {
+        return map.solveEnergies(fieldValues, reference);
+    }
+
+    /** @return the map, dense baseline (one thread) */
     @Benchmark
     public StarkMapResult naiveDense() {
-        return map.solveDense(fieldValues, reference);
+        return map.withThreads(1).solveDense(fieldValues, reference);
     }
 }

@@ -13,14 +13,21 @@ class StarkAndPairBenchmarksTest {
         StarkMapBenchmark b = new StarkMapBenchmark();
         b.nMax = 61;
         b.fields = 2;
+        b.threads = 2;
         b.setUp();
         StarkMapResult banded = b.banded();
+        StarkMapResult energies = b.bandedEnergies();
         StarkMapResult dense = b.naiveDense();
         for (int f = 0; f < 2; f++) {
             double[] e1 = banded.energiesPerCm(f);
             double[] e2 = dense.energiesPerCm(f);
+            double[] e3 = energies.energiesPerCm(f);
+            double[] c1 = banded.characters(f);
+            double[] c2 = dense.characters(f);
             for (int i = 0; i < e1.length; i++) {
                 assertEquals(e2[i], e1[i], 1e-9);
+                assertEquals(e2[i], e3[i], 1e-9);
+                assertEquals(c2[i], c1[i], 1e-6);
             }
         }
     }

@@ -42,7 +42,7 @@ import picocli.CommandLine.Spec;
             "  ritzwerk rydberg microwave --species \"Rb-87 I\" --state 50d5/2 --to 51p3/2 --splitting 10",
             "  ritzwerk rydberg microwave --species \"Rb-87 I\" --state 50d5/2 --near 17 --window 1"},
         subcommands = {RydbergCommand.Polarize.class, RydbergCommand.Map.class, RydbergCommand.Pair.class,
-            RydbergCommand.Microwave.class})
+            RydbergCommand.Microwave.class, PairPotentialCommand.class})
 final class RydbergCommand implements Runnable {
 
     @Spec

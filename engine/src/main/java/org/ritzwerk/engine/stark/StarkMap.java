@@ -5,8 +5,11 @@ import java.util.Arrays;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
 import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
-import org.apache.commons.math4.legacy.linear.ArrayRealVector;
 import org.apache.commons.math4.legacy.linear.EigenDecomposition;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.internal.angular.WignerSymbols;
@@ -27,20 +30,22 @@ import org.ritzwerk.engine.internal.units.AtomicUnits;
  * {@code min(n - 1, lMax)}, both j; zero-field energies from the atom's levels (quantum-defect
  * fits, the core-polarization formula or hydrogenic for high l), couplings from its radial
  * functions. Diagonalised at each field (see {@link #solve}): the band matrix is reduced to
- * tridiagonal form by Givens rotations and Commons Math's symmetric tridiagonal
- * {@link EigenDecomposition} (implicit QL) solves that; avoided crossings are resolved as the basis
- * allows.
+ * tridiagonal form by Givens rotations and reference LAPACK's tridiagonal solvers (in their
+ * pure-Java translation, {@code dev.ludovic.netlib:lapack}) solve that; avoided crossings are
+ * resolved as the basis allows.
  *
  * <p><b>Basis and structure</b>: the states are ordered by l, then j, then n, so that the field
  * couples only neighbouring l blocks and the matrix is banded with a half-bandwidth of about
- * {@code 2 (nMax - nMin + 1)} ({@link #halfBandwidth()}); the couplings are computed once, held
- * as a sparse list, and the matrix at each field is filled from them. Commons Math has no banded
- * symmetric solver; it takes a tridiagonal matrix, so the band is reduced to that first
- * ({@link #solveDense} keeps the plain dense decomposition as the baseline). The reduction is
- * O(n^2 b), but Commons Math's tridiagonal solver still accumulates all n eigenvectors (O(n^3)),
- * and that dominates: StarkMapBenchmark finds the two paths equally fast at 1,000 states (about
- * 10 s per field on one core of the test machine). An eigenvalue-only tridiagonal solver would
- * remove that cost; Commons Math has none.
+ * {@code 2 (nMax - nMin + 1)} ({@link #halfBandwidth()}); the couplings do not depend on the field:
+ * they are computed once, when the map is built, held as a sparse list, and the matrix at each
+ * field is filled from them. The band is reduced to a tridiagonal matrix (O(n^2 b)); LAPACK's
+ * {@code DSTEMR} gives all its eigenvalues and eigenvectors in O(n^2) ({@link #solve}), its
+ * {@code DSTERF} the eigenvalues alone ({@link #solveEnergies}); {@link #solveDense} keeps Commons
+ * Math's dense decomposition, which accumulates every eigenvector by rotations (O(n^3)), as the
+ * baseline. Profiling the dense and the earlier banded path (Commons Math's tridiagonal
+ * decomposition) at 1,008 states put 96 % of the time in that accumulation and under 5 % in
+ * building the matrix and reducing the band. StarkMapBenchmark measures the paths side by side.
+ * Fields are independent; {@link #withThreads} spreads them over threads.
  *
  * <p><b>Accuracy</b>: a state's energy converges as the n range grows around it (see the tests:
  * hydrogen's linear Stark effect, {@code (3/2) n (n1 - n2) F}, within 1e-6 n^2 of the slope in one manifold; the Rb
@@ -61,9 +66,10 @@ public final class StarkMap {
     private final int[] columns;
     private final double[] values;
     private final int halfBandwidth;
+    private final int threads;
 
     private StarkMap(AlkaliAtom atom, int twoMj, List<State> basis, double[] energiesPerCm, int[] rows,
-            int[] columns, double[] values, int halfBandwidth) {
+            int[] columns, double[] values, int halfBandwidth, int threads) {
         this.atom = atom;
         this.twoMj = twoMj;
         this.basis = basis;
@@ -72,6 +78,7 @@ public final class StarkMap {
         this.columns = columns;
         this.values = values;
         this.halfBandwidth = halfBandwidth;
+        this.threads = threads;
     }
 
     /**
@@ -234,7 +241,7 @@ public final class StarkMap {
                 }
             }
             return new StarkMap(atom, twoMj, Collections.unmodifiableList(states), energies, Arrays.copyOf(r, count),
-                    Arrays.copyOf(c, count), Arrays.copyOf(v, count), band);
+                    Arrays.copyOf(c, count), Arrays.copyOf(v, count), band, 1);
         }
     }
 
@@ -305,11 +312,31 @@ public final class StarkMap {
     }
 
     /**
+     * The same map solved with {@code threads} threads, each taking whole fields (the fields are
+     * independent; the results do not depend on the number of threads). A pool of that many threads
+     * is made for each solve and shut down after it.
+     *
+     * @param threads at least 1 (the default: the calling thread only)
+     * @return a map that solves with that many threads
+     */
+    public StarkMap withThreads(int threads) {
+        if (threads < 1) {
+            throw new IllegalArgumentException("threads must be >= 1, got " + threads);
+        }
+        return new StarkMap(atom, twoMj, basis, energiesPerCm, rows, columns, values, halfBandwidth, threads);
+    }
+
+    /** @return the number of threads a solve uses */
+    public int threads() {
+        return threads;
+    }
+
+    /**
      * Diagonalises at every field: the banded Hamiltonian is reduced to tridiagonal form by Givens
-     * rotations (O(n^2 b), see {@code BandReduction}), and Commons Math's symmetric tridiagonal
-     * {@link EigenDecomposition#EigenDecomposition(double[], double[])} gives the eigenvalues and
-     * the tridiagonal eigenvectors; the reference's share in each eigenstate is the squared
-     * product of those with the rotated reference vector.
+     * rotations (O(n^2 b), see {@code BandReduction}), which are applied to the reference state's
+     * unit vector as well; LAPACK's {@code DSTEMR} (multiple relatively robust representations,
+     * O(n^2)) gives the eigenvalues and the tridiagonal eigenvectors, and the reference's share in
+     * each eigenstate is the squared product of those with the rotated reference vector.
      *
      * @param fieldsVPerM the fields, V/m, finite; at least one
      * @param reference   the zero-field state whose share in each eigenstate is reported (a basis state)
@@ -317,12 +344,27 @@ public final class StarkMap {
      * @throws StarkException ({@link StarkException#BAD_BASIS}) when the reference is not in the basis
      */
     public StarkMapResult solve(double[] fieldsVPerM, State reference) {
-        return solve(fieldsVPerM, reference, false);
+        return solve(fieldsVPerM, reference, Path.BANDED);
+    }
+
+    /**
+     * As {@link #solve(double[], State)} without the characters: after the band reduction only
+     * the eigenvalues are computed (LAPACK's {@code DSTERF}, O(n^2)). The result's
+     * {@link StarkMapResult#hasCharacters()} is false.
+     *
+     * @param fieldsVPerM the fields, V/m, finite; at least one
+     * @param reference   the zero-field state the energies are given relative to (a basis state)
+     * @return energies at every field
+     * @throws StarkException ({@link StarkException#BAD_BASIS}) when the reference is not in the basis
+     */
+    public StarkMapResult solveEnergies(double[] fieldsVPerM, State reference) {
+        return solve(fieldsVPerM, reference, Path.ENERGIES);
     }
 
     /**
      * As {@link #solve(double[], State)}, with the dense symmetric decomposition of Commons Math on
-     * the whole matrix (O(n^3) per field): the reference the banded path is tested and benchmarked
+     * the whole matrix (Householder tridiagonalisation and implicit QL, all eigenvectors
+     * accumulated; O(n^3) per field): the reference the banded path is tested and benchmarked
      * against.
      *
      * @param fieldsVPerM the fields, V/m, finite; at least one
@@ -330,10 +372,15 @@ public final class StarkMap {
      * @return energies and characters at every field
      */
     public StarkMapResult solveDense(double[] fieldsVPerM, State reference) {
-        return solve(fieldsVPerM, reference, true);
+        return solve(fieldsVPerM, reference, Path.DENSE);
     }
 
-    private StarkMapResult solve(double[] fieldsVPerM, State reference, boolean dense) {
+    /** How one field is diagonalised. */
+    private enum Path {
+        BANDED, ENERGIES, DENSE
+    }
+
+    private StarkMapResult solve(double[] fieldsVPerM, State reference, Path path) {
         Objects.requireNonNull(fieldsVPerM, "fieldsVPerM");
         if (fieldsVPerM.length == 0) {
             throw new IllegalArgumentException("no field given");
@@ -345,37 +392,89 @@ public final class StarkMap {
         }
         int ref = indexOf(Objects.requireNonNull(reference, "reference"));
         double origin = energiesPerCm[ref];
-        int n = basis.size();
-        double[][] energies = new double[fieldsVPerM.length][];
-        double[][] characters = new double[fieldsVPerM.length][];
-        for (int f = 0; f < fieldsVPerM.length; f++) {
-            double[][] h = hamiltonian(fieldsVPerM[f] / AtomicUnits.FIELD_V_PER_M, origin);
-            double[] w = new double[n];
-            w[ref] = 1;
-            EigenDecomposition eigen;
-            if (dense) {
-                eigen = new EigenDecomposition(new Array2DRowRealMatrix(h, false));
-            } else {
-                BandReduction reduction = new BandReduction(h, halfBandwidth, w);
-                reduction.reduce();
-                eigen = new EigenDecomposition(reduction.diagonal(), reduction.offDiagonal());
+        double[] fields = fieldsVPerM.clone();
+        double[][] energies = new double[fields.length][];
+        double[][] characters = path == Path.ENERGIES ? null : new double[fields.length][];
+        if (threads == 1 || fields.length == 1) {
+            for (int f = 0; f < fields.length; f++) {
+                solveOne(fields, f, ref, origin, path, energies, characters);
             }
+        } else {
+            ExecutorService pool = Executors.newFixedThreadPool(Math.min(threads, fields.length), runnable -> {
+                Thread t = new Thread(runnable, "stark-map");
+                t.setDaemon(true);
+                return t;
+            });
+            try {
+                List<Future<?>> done = new ArrayList<>();
+                for (int f = 0; f < fields.length; f++) {
+                    int field = f;
+                    done.add(pool.submit(() -> solveOne(fields, field, ref, origin, path, energies, characters)));
+                }
+                for (Future<?> future : done) {
+                    future.get();
+                }
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new IllegalStateException("interrupted while solving the Stark map", e);
+            } catch (ExecutionException e) {
+                Throwable cause = e.getCause();
+                if (cause instanceof RuntimeException) {
+                    throw (RuntimeException) cause;
+                }
+                if (cause instanceof Error) {
+                    throw (Error) cause;
+                }
+                throw new IllegalStateException(cause);
+            } finally {
+                pool.shutdownNow();
+            }
+        }
+        return new StarkMapResult(basis, twoMj, reference, origin, fields, energies, characters);
+    }
+
+    /** Diagonalises at field {@code f} and stores its energies (cm^-1) and characters. */
+    private void solveOne(double[] fields, int f, int ref, double origin, Path path, double[][] energies,
+            double[][] characters) {
+        int n = basis.size();
+        double fieldAu = fields[f] / AtomicUnits.FIELD_V_PER_M;
+        double[] e = new double[n];
+        double[] c = new double[n];
+        if (path == Path.DENSE) {
+            double[][] h = hamiltonian(fieldAu, origin);
+            EigenDecomposition eigen = new EigenDecomposition(new Array2DRowRealMatrix(h, false));
             double[] values = eigen.getRealEigenvalues();
             Integer[] order = new Integer[n];
             for (int i = 0; i < n; i++) {
                 order[i] = i;
             }
             Arrays.sort(order, (x, y) -> Double.compare(values[x], values[y]));
-            double[] e = new double[n];
-            double[] c = new double[n];
             for (int i = 0; i < n; i++) {
-                e[i] = values[order[i]] * AtomicUnits.HARTREE_PER_CM + origin;
-                double overlap = eigen.getEigenvector(order[i]).dotProduct(new ArrayRealVector(w, false));
+                e[i] = values[order[i]];
+                double overlap = eigen.getEigenvector(order[i]).getEntry(ref);
                 c[i] = overlap * overlap;
             }
-            energies[f] = e;
+        } else {
+            double[] w = new double[n];
+            w[ref] = 1;
+            double[] diagonal = new double[n];
+            for (int i = 0; i < n; i++) {
+                diagonal[i] = AtomicUnits.hartreeFromPerCm(energiesPerCm[i] - origin);
+            }
+            BandReduction reduction = BandReduction.ofCouplings(diagonal, rows, columns, values, fieldAu, halfBandwidth,
+                    w);
+            reduction.reduce();
+            double[] d = reduction.diagonal();
+            double[] off = reduction.offDiagonal();
+            e = path == Path.ENERGIES ? TridiagonalEigen.eigenvalues(d, off)
+                    : TridiagonalEigen.eigenvaluesAndShares(d, off, w, c);
+        }
+        for (int i = 0; i < n; i++) {
+            e[i] = e[i] * AtomicUnits.HARTREE_PER_CM + origin;
+        }
+        energies[f] = e;
+        if (characters != null) {
             characters[f] = c;
         }
-        return new StarkMapResult(basis, twoMj, reference, origin, fieldsVPerM.clone(), energies, characters);
     }
 }

@@ -6,8 +6,9 @@ import org.ritzwerk.atom.State;
 
 /**
  * The energies and characters of a Stark map: at each field, every eigenvalue (ascending, cm^-1
- * above the ground level) and the share {@code |<reference|psi>|^2} of the chosen zero-field state
- * in its eigenstate. Immutable: the accessors return copies.
+ * above the ground level) and, unless the map was solved for energies only, the share
+ * {@code |<reference|psi>|^2} of the chosen zero-field state in its eigenstate. Immutable: the
+ * accessors return copies.
  */
 public final class StarkMapResult {
 
@@ -81,19 +82,36 @@ public final class StarkMapResult {
     }
 
     /**
+     * @return whether the characters were computed ({@link StarkMap#solveEnergies} computes none)
+     */
+    public boolean hasCharacters() {
+        return characters != null;
+    }
+
+    /**
      * @param field the field's index
      * @return the reference's share in each eigenstate, 0 to 1, in the order of the energies
+     * @throws IllegalStateException when the map was solved for energies only
      */
     public double[] characters(int field) {
-        return characters[field].clone();
+        return requireCharacters()[field].clone();
+    }
+
+    private double[][] requireCharacters() {
+        if (characters == null) {
+            throw new IllegalStateException("this Stark map was solved for energies only; use StarkMap.solve for"
+                    + " characters");
+        }
+        return characters;
     }
 
     /**
      * @param field the field's index
      * @return the index of the eigenstate with the largest share of the reference state
+     * @throws IllegalStateException when the map was solved for energies only
      */
     public int strongestIndex(int field) {
-        double[] c = characters[field];
+        double[] c = requireCharacters()[field];
         int best = 0;
         for (int i = 1; i < c.length; i++) {
             if (c[i] > c[best]) {
@@ -107,6 +125,7 @@ public final class StarkMapResult {
      * @param field the field's index
      * @return the energy of the eigenstate with the largest share of the reference, relative to the
      *         reference's zero-field energy, Hz
+     * @throws IllegalStateException when the map was solved for energies only
      */
     public double referenceShiftHz(int field) {
         return energiesRelativeHz(field)[strongestIndex(field)];

@@ -137,6 +137,39 @@ class StarkMapTest {
         }
     }
 
+    /**
+     * The energies-only path (DSTERF) gives the same eigenvalues as the path with characters
+     * (DSTEMR) and as the dense decomposition; the number of threads changes nothing; an
+     * energies-only result has no characters.
+     */
+    @Test
+    void energiesOnlyAndThreadedSolvesAgree() {
+        StarkMap map = StarkMap.builder(RB).projection(1).principalRange(44, 47).build();
+        double[] fields = {0, 150, 1500, 15000, 40000};
+        State ref = State.of(45, 2, 5);
+        StarkMapResult full = map.solve(fields, ref);
+        StarkMapResult energies = map.solveEnergies(fields, ref);
+        StarkMapResult threaded = map.withThreads(2).solve(fields, ref);
+        StarkMapResult dense = map.solveDense(fields, ref);
+        assertTrue(full.hasCharacters());
+        assertTrue(!energies.hasCharacters());
+        assertThrows(IllegalStateException.class, () -> energies.characters(0));
+        assertThrows(IllegalStateException.class, () -> energies.referenceShiftHz(0));
+        assertThrows(IllegalArgumentException.class, () -> map.withThreads(0));
+        assertEquals(2, map.withThreads(2).threads());
+        for (int f = 0; f < fields.length; f++) {
+            assertTrue(Arrays.equals(full.energiesPerCm(f), threaded.energiesPerCm(f)), "threads change nothing");
+            assertTrue(Arrays.equals(full.characters(f), threaded.characters(f)), "threads change nothing");
+            double[] e = full.energiesPerCm(f);
+            double[] eo = energies.energiesPerCm(f);
+            double[] ed = dense.energiesPerCm(f);
+            for (int i = 0; i < e.length; i++) {
+                assertEquals(ed[i], e[i], 1e-9, "field " + fields[f] + ", eigenvalue " + i);
+                assertEquals(ed[i], eo[i], 1e-9, "field " + fields[f] + ", eigenvalue " + i);
+            }
+        }
+    }
+
     @Test
     void charactersAreSharesOfTheReference() {
         StarkMap map = StarkMap.builder(RB).projection(1).principalRange(48, 51).maxOrbital(10).build();

@@ -1,0 +1,155 @@
+package org.ritzwerk.engine.stark;
+
+import dev.ludovic.netlib.lapack.JavaLAPACK;
+import dev.ludovic.netlib.lapack.LAPACK;
+import java.lang.invoke.MethodHandle;
+import java.lang.invoke.MethodHandles;
+import java.lang.invoke.MethodType;
+
+/**
+ * The symmetric tridiagonal eigenproblem of a Stark map, solved by reference LAPACK in its pure-Java
+ * translation ({@code dev.ludovic.netlib:lapack}'s {@link JavaLAPACK}; no native code is loaded):
+ * <ul>
+ * <li>eigenvalues only: {@code DSTERF}, the root-free QL/QR iteration of Pal, Walker and Kahan
+ * (as LAPACK's routine documentation names it; E. Anderson et al., LAPACK Users' Guide, 3rd ed.,
+ * SIAM (1999)), O(n^2);</li>
+ * <li>eigenvalues and eigenvectors: {@code DSTEMR}, the multiple relatively robust representations
+ * algorithm (I. S. Dhillon, B. N. Parlett and C. Voemel, ACM Trans. Math. Softw. 32, 533 (2006)),
+ * O(n^2) for all n vectors, where the implicit QL with accumulated rotations costs O(n^3).</li>
+ * </ul>
+ * Of the eigenvectors only one number each is kept: the squared projection of a tracked vector
+ * (the reference state carried through the band reduction). LAPACK's saved machine constants
+ * ({@code DLAMCH}) are set by a first call in this class's initialiser, so that every thread that
+ * uses the class sees them; afterwards every call works on its own arrays, so the class is
+ * thread-safe.
+ *
+ * <p>The routines take LAPACK's output holders ({@code org.netlib.util.intW}, {@code booleanW}),
+ * which live in the translation's jar; that jar declares no module name, so the engine never names
+ * its types: they are reached through method handles (reflection reads every module), and the
+ * engine's module descriptor requires only {@code dev.ludovic.netlib.lapack}, a declared name.
+ */
+final class TridiagonalEigen {
+
+    private static final LAPACK LAPACK = JavaLAPACK.getInstance();
+    private static final MethodHandle NEW_INT;
+    private static final MethodHandle INT_VALUE;
+    private static final MethodHandle NEW_BOOLEAN;
+    private static final MethodHandle DSTERF;
+    private static final MethodHandle DSTEMR;
+
+    static {
+        try {
+            ClassLoader loader = LAPACK.class.getClassLoader();
+            Class<?> intW = Class.forName("org.netlib.util.intW", true, loader);
+            Class<?> booleanW = Class.forName("org.netlib.util.booleanW", true, loader);
+            MethodHandles.Lookup lookup = MethodHandles.publicLookup();
+            NEW_INT = lookup.findConstructor(intW, MethodType.methodType(void.class, int.class));
+            INT_VALUE = lookup.findGetter(intW, "val", int.class);
+            NEW_BOOLEAN = lookup.findConstructor(booleanW, MethodType.methodType(void.class, boolean.class));
+            DSTERF = lookup.findVirtual(LAPACK.class, "dsterf", MethodType.methodType(void.class, int.class,
+                    double[].class, double[].class, intW));
+            DSTEMR = lookup.findVirtual(LAPACK.class, "dstemr", MethodType.methodType(void.class, String.class,
+                    String.class, int.class, double[].class, double[].class, double.class, double.class, int.class,
+                    int.class, intW, double[].class, double[].class, int.class, int.class, int[].class, booleanW,
+                    double[].class, int.class, int[].class, int.class, intW));
+        } catch (ReflectiveOperationException e) {
+            throw new ExceptionInInitializerError(e);
+        }
+        eigenvalues(new double[] {1, 2}, new double[] {0.5});
+    }
+
+    private TridiagonalEigen() {
+    }
+
+    /**
+     * @param diagonal    the diagonal, n values, destroyed
+     * @param offDiagonal the first off-diagonal, n - 1 values, destroyed
+     * @return the eigenvalues, ascending
+     * @throws ArithmeticException when the iteration does not converge (LAPACK's INFO &gt; 0)
+     */
+    static double[] eigenvalues(double[] diagonal, double[] offDiagonal) {
+        int n = diagonal.length;
+        double[] e = offDiagonal.length == 0 ? new double[1] : offDiagonal;
+        Object info = holder(0);
+        try {
+            DSTERF.invoke(LAPACK, n, diagonal, e, info);
+        } catch (Throwable t) {
+            throw rethrow("DSTERF", t);
+        }
+        check("DSTERF", value(info));
+        return diagonal;
+    }
+
+    /**
+     * @param diagonal    the diagonal, n values, destroyed
+     * @param offDiagonal the first off-diagonal, n - 1 values, not changed
+     * @param tracked     a vector of n values in the tridiagonal basis
+     * @param shares      filled with {@code (tracked . v_i)^2} for each eigenvector v_i, in the order of
+     *                    the eigenvalues
+     * @return the eigenvalues, ascending
+     * @throws ArithmeticException when the algorithm fails (LAPACK's INFO &ne; 0)
+     */
+    static double[] eigenvaluesAndShares(double[] diagonal, double[] offDiagonal, double[] tracked, double[] shares) {
+        int n = diagonal.length;
+        double[] e = new double[n];
+        System.arraycopy(offDiagonal, 0, e, 0, n - 1);
+        double[] w = new double[n];
+        double[] z = new double[n * n];
+        int[] support = new int[2 * n];
+        double[] work = new double[18 * n];
+        int[] iwork = new int[10 * n];
+        Object found = holder(0);
+        Object info = holder(0);
+        try {
+            DSTEMR.invoke(LAPACK, "V", "A", n, diagonal, e, 0.0, 0.0, 0, 0, found, w, z, n, n, support,
+                    NEW_BOOLEAN.invoke(true), work, work.length, iwork, iwork.length, info);
+        } catch (Throwable t) {
+            throw rethrow("DSTEMR", t);
+        }
+        check("DSTEMR", value(info));
+        if (value(found) != n) {
+            throw new ArithmeticException("DSTEMR found " + value(found) + " of " + n + " eigenvalues");
+        }
+        for (int i = 0; i < n; i++) {
+            double overlap = 0;
+            int column = i * n;
+            for (int k = 0; k < n; k++) {
+                overlap += z[column + k] * tracked[k];
+            }
+            shares[i] = overlap * overlap;
+        }
+        return w;
+    }
+
+    private static Object holder(int initial) {
+        try {
+            return NEW_INT.invoke(initial);
+        } catch (Throwable t) {
+            throw rethrow("intW", t);
+        }
+    }
+
+    private static int value(Object holder) {
+        try {
+            return (int) INT_VALUE.invoke(holder);
+        } catch (Throwable t) {
+            throw rethrow("intW", t);
+        }
+    }
+
+    private static RuntimeException rethrow(String routine, Throwable t) {
+        if (t instanceof RuntimeException) {
+            return (RuntimeException) t;
+        }
+        if (t instanceof Error) {
+            throw (Error) t;
+        }
+        return new IllegalStateException("LAPACK " + routine + " could not be called", t);
+    }
+
+    private static void check(String routine, int info) {
+        if (info != 0) {
+            throw new ArithmeticException("LAPACK " + routine + " failed (INFO = " + info + ")");
+        }
+    }
+}
