@@ -229,15 +229,16 @@ final class RydbergCommand implements Runnable {
             if (plot != null) {
                 OutputFiles.check(List.of(new OutputFiles.Named("--plot", plot)), common.data.inputs(List.of()));
             }
-            StarkMap map = StarkMap.builder(atom).projection(twoMj).principalRange(low, high).maxOrbital(lMax).build();
+            StarkMap map = StarkMap.builder(atom).projection(twoMj).principalRange(low, high).maxOrbital(lMax).build()
+                    .withThreads(Runtime.getRuntime().availableProcessors());
             if (map.size() > 1500) {
                 throw new OptionException("the basis holds " + map.size() + " states, more than 1500: narrow "
                         + "--n-min/--n-max or lower --l-max");
             }
             if ((long) map.size() * map.size() * map.size() * (steps + 1) > 2e9) {
                 spec.commandLine().getErr().println("note: " + map.size() + " basis states at " + (steps + 1)
-                        + " fields; each field takes a dense eigen-decomposition of the tridiagonal matrix (time grows"
-                        + " as the cube of the basis): expect seconds per field above a few hundred states");
+                        + " fields; each field takes an eigen-decomposition with eigenvectors (time grows as the cube"
+                        + " of the basis): expect about a second per field and core at 1,000 states");
                 spec.commandLine().getErr().flush();
             }
             double[] fields = new double[steps + 1];
