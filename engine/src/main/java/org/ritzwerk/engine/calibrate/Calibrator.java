@@ -11,7 +11,8 @@ import java.util.Objects;
  *   <li>pair the strongest peaks with the lamp's lines with no starting solution, or within the
  *       problem's prior ({@link LampMatcher});</li>
  *   <li>refine: every peak, placed by that first solution, is assigned to the lamp lines by the
- *       line identifier's optimal one-to-one assignment ({@link IdentifierRefinement});</li>
+ *       line identifier's optimal one-to-one assignment ({@link IdentifierRefinement}); a peak that
+ *       looks like an unresolved blend weighs only as much as its centroid can be trusted;</li>
  *   <li>fit a weighted polynomial with outlier clipping ({@link DispersionFit}).</li>
  * </ol>
  * The command line's {@code calibrate} runs exactly this; the defaults here are its defaults.

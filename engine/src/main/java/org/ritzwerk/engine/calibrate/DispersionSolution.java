@@ -43,6 +43,7 @@ public final class DispersionSolution {
     private final double[] coefficients;
     private final double[][] covariance;
     private final double covarianceScale;
+    private final double modelSelectionScale;
     private final Medium medium;
     private final double chiSquare;
     private final int degreesOfFreedom;
@@ -56,14 +57,15 @@ public final class DispersionSolution {
     private final double[] criterion;
 
     DispersionSolution(double centre, double halfRange, double[] coefficients, double[][] covariance,
-            double covarianceScale, Medium medium, double chiSquare, int degreesOfFreedom, double lowestPixel,
-            double highestPixel, double[] pixel, double[] wavelength, double[] sigma, double[] residual,
-            boolean[] rejected, double[] criterion) {
+            double covarianceScale, double modelSelectionScale, Medium medium, double chiSquare,
+            int degreesOfFreedom, double lowestPixel, double highestPixel, double[] pixel, double[] wavelength,
+            double[] sigma, double[] residual, boolean[] rejected, double[] criterion) {
         this.centre = centre;
         this.halfRange = halfRange;
         this.coefficients = coefficients;
         this.covariance = covariance;
         this.covarianceScale = covarianceScale;
+        this.modelSelectionScale = modelSelectionScale;
         this.medium = medium;
         this.chiSquare = chiSquare;
         this.degreesOfFreedom = degreesOfFreedom;
@@ -118,7 +120,7 @@ public final class DispersionSolution {
                 java.util.Arrays.fill(row, Double.NaN);
             }
         }
-        return new DispersionSolution(polynomial.centrePixel(), polynomial.halfRange(), coefficients, c, 1,
+        return new DispersionSolution(polynomial.centrePixel(), polynomial.halfRange(), coefficients, c, 1, 1,
                 polynomial.medium(), Double.NaN, 0, polynomial.lowestPixel(), polynomial.highestPixel(), new double[0],
                 new double[0], new double[0], new double[0], new boolean[0], new double[0]);
     }
@@ -205,7 +207,10 @@ public final class DispersionSolution {
         return DispersionPolynomial.powerCoefficients(coefficients, centre, halfRange);
     }
 
-    /** @return the covariance of the scaled coefficients in nm^2, as reported (after {@link #covarianceScale()}), a copy */
+    /**
+     * @return the covariance of the scaled coefficients in nm^2, as reported (after
+     *         {@link #covarianceScale()} and {@link #modelSelectionScale()}), a copy
+     */
     public double[][] covariance() {
         double[][] copy = new double[covariance.length][];
         for (int i = 0; i < copy.length; i++) {
@@ -221,6 +226,16 @@ public final class DispersionSolution {
      */
     public double covarianceScale() {
         return covarianceScale;
+    }
+
+    /**
+     * @return the further factor the covariance was multiplied by so that the stated uncertainty
+     *         covers the uncertainty of an automatic degree choice over the fitted range (see
+     *         {@link DispersionFit}): 1 when one degree had all the support, for a fixed degree
+     *         and for stored coefficients
+     */
+    public double modelSelectionScale() {
+        return modelSelectionScale;
     }
 
     /** @return the medium of the wavelengths */

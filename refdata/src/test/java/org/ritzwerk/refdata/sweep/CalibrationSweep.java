@@ -17,16 +17,37 @@ import org.ritzwerk.engine.calibrate.DispersionSolution;
  */
 public final class CalibrationSweep {
 
-    /** What happened in one sweep. */
+    /**
+     * What happened in one sweep.
+     *
+     * @param runs                 exposures calibrated
+     * @param solved               accepted with error below 0.1 pixel
+     * @param refused              refused with a {@link CalibrationException}
+     * @param imprecise            accepted with error 0.1 to 1 pixel
+     * @param wrong                accepted with error above 1 pixel, or failed otherwise
+     * @param worstSolvedError     largest error of a solved run, pixels
+     * @param worstImpreciseSigmas largest error of an imprecise run in its stated standard uncertainties
+     * @param within1Sigma         over every accepted run, at 201 evenly spaced pixels from its first to
+     *                             its last fitted line: the share where the error is below the stated
+     *                             standard uncertainty (0.683 for Gaussian errors and honest uncertainties)
+     * @param within2Sigma         the same below twice the stated uncertainty (0.954 expected)
+     * @param beyond3Sigma         accepted runs whose error somewhere in that range exceeds three stated
+     *                             standard uncertainties
+     * @param worstSigmas          the largest error of any accepted run in stated standard uncertainties
+     * @param notSolved            a description of every run not solved
+     */
     public record Outcome(int runs, int solved, int refused, int imprecise, int wrong, double worstSolvedError,
-            double worstImpreciseSigmas, List<String> notSolved) {
+            double worstImpreciseSigmas, double within1Sigma, double within2Sigma, int beyond3Sigma,
+            double worstSigmas, List<String> notSolved) {
 
         @Override
         public String toString() {
             return String.format(Locale.ROOT, "%d runs: %d solved (worst %.3f px), %d refused, %d accepted with "
                     + "0.1-1 px error (at most %.1f stated standard uncertainties), %d accepted with > 1 px error"
-                    + "%n  %s", runs, solved, worstSolvedError, refused, imprecise, worstImpreciseSigmas, wrong,
-                    String.join("\n  ", notSolved));
+                    + "%n  coverage of the stated uncertainty over the accepted runs: %.3f within 1 sigma, %.3f "
+                    + "within 2 sigma; %d runs beyond 3 sigma somewhere (worst %.1f sigma)%n  %s", runs, solved,
+                    worstSolvedError, refused, imprecise, worstImpreciseSigmas, wrong, within1Sigma, within2Sigma,
+                    beyond3Sigma, worstSigmas, String.join("\n  ", notSolved));
         }
     }
 
@@ -61,6 +82,11 @@ public final class CalibrationSweep {
         int wrong = 0;
         double worst = 0;
         double worstSigmas = 0;
+        double worstAnySigmas = 0;
+        long points = 0;
+        long within1 = 0;
+        long within2 = 0;
+        int beyond3 = 0;
         List<String> notSolved = new ArrayList<>();
         int planned = runs;
         for (long seed = firstSeed; seed < firstSeed + planned; seed++) {
@@ -86,6 +112,16 @@ public final class CalibrationSweep {
                 continue;
             }
             double error = largestError(exposure, calibration.solution(), calibration);
+            double[] z = errorsInSigmas(exposure, calibration.solution(), calibration);
+            double runWorst = 0;
+            for (double v : z) {
+                points++;
+                within1 += v < 1 ? 1 : 0;
+                within2 += v < 2 ? 1 : 0;
+                runWorst = Math.max(runWorst, v);
+            }
+            beyond3 += runWorst > 3 ? 1 : 0;
+            worstAnySigmas = Math.max(worstAnySigmas, runWorst);
             if (error < 0.1) {
                 solved++;
                 worst = Math.max(worst, error);
@@ -101,7 +137,10 @@ public final class CalibrationSweep {
                         exposure, error, calibration.solution().usedCount(), calibration.solution().rmsPixels()));
             }
         }
-        return new Outcome(runs, solved, refused, imprecise, wrong, worst, worstSigmas, notSolved);
+        return new Outcome(runs, solved, refused, imprecise, wrong, worst, worstSigmas,
+                points == 0 ? Double.NaN : (double) within1 / points,
+                points == 0 ? Double.NaN : (double) within2 / points,
+                beyond3, worstAnySigmas, notSolved);
     }
 
     /** The largest error in pixels between the lowest and highest pixel of the fitted pairs. */
@@ -120,15 +159,24 @@ public final class CalibrationSweep {
     /** The largest error over the solution's own stated standard uncertainty, same range. */
     static double largestErrorInSigmas(LampExposures.Exposure exposure, DispersionSolution solution,
             Calibration calibration) {
-        double from = calibration.lowestUsedPixel();
-        double to = calibration.highestUsedPixel();
         double worst = 0;
-        for (int s = 0; s <= 200; s++) {
-            double p = from + (to - from) * s / 200.0;
-            worst = Math.max(worst, Math.abs(solution.wavelengthAt(p) - exposure.truthAt(p))
-                    / solution.wavelengthSigmaAt(p));
+        for (double z : errorsInSigmas(exposure, solution, calibration)) {
+            worst = Math.max(worst, z);
         }
         return worst;
+    }
+
+    /** |error| over the stated standard uncertainty at 201 evenly spaced pixels of the same range. */
+    static double[] errorsInSigmas(LampExposures.Exposure exposure, DispersionSolution solution,
+            Calibration calibration) {
+        double from = calibration.lowestUsedPixel();
+        double to = calibration.highestUsedPixel();
+        double[] z = new double[201];
+        for (int s = 0; s <= 200; s++) {
+            double p = from + (to - from) * s / 200.0;
+            z[s] = Math.abs(solution.wavelengthAt(p) - exposure.truthAt(p)) / solution.wavelengthSigmaAt(p);
+        }
+        return z;
     }
 
     /**
