@@ -19,7 +19,7 @@ import org.ritzwerk.engine.pair.PairPotentialResult;
 import org.ritzwerk.engine.pair.PairPotentials;
 import org.ritzwerk.engine.pair.PairState;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.refdata.RydbergData;
+import org.ritzwerk.refdata.DataContext;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
 
@@ -27,7 +27,7 @@ import tools.jackson.databind.json.JsonMapper;
 class PairPotentialCommandTest {
 
     private static final JsonMapper JSON = JsonMapper.builder().build();
-    private static final AlkaliAtom RB = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));
+    private static final AlkaliAtom RB = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I"));
 
     private static List<JsonNode> rows(CliTest.Run run) {
         assertEquals(0, run.code(), run.err());
