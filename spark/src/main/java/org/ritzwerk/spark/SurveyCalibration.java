@@ -39,8 +39,8 @@ import org.ritzwerk.refdata.DataContext;
  * {@code pixelCentreWavelengthSigmas}).
  *
  * <p>The parameters are broadcast once; each partition builds the lamp set and the calibrator
- * once. A malformed row fails the job with a {@link SparkRowException} naming the row's id and
- * field; an exposure the calibrator refuses gets its error code and message in
+ * once. A malformed row (or one whose id another row has) fails the job with a
+ * {@link SparkRowException} naming the row's id and field; an exposure the calibrator refuses gets its error code and message in
  * {@code failure_code} and {@code failure}.
  *
  * <p>Immutable and thread-safe; the operations are lazy transformations.
@@ -90,8 +90,9 @@ public final class SurveyCalibration {
      *                     {@code science.calibration_id = calibrations.id} (Spark broadcasts the
      *                     calibrations when they are small)
      * @return every science spectrum with its wavelengths, {@link Schemas#CALIBRATED} (lazy); a
-     *         spectrum whose calibration is missing, refused, or made for another pixel count fails
-     *         the job with a {@link SparkRowException} naming the spectrum
+     *         spectrum whose calibration is missing, refused, made for another pixel count or not
+     *         the only one with its id, and a spectrum whose own id another row has, fail the job
+     *         with a {@link SparkRowException} naming the spectrum
      */
     public static Dataset<Row> apply(Dataset<Row> science, Dataset<Row> calibrations) {
         Dataset<Row> left = Setups.checkedColumns(science, Fields.of(science.schema(), Schemas.SCIENCE, "science"));

@@ -43,8 +43,9 @@ import org.ritzwerk.refdata.DataContext;
  *
  * <p>The parameters are broadcast once; each partition builds the candidate catalogue and the
  * search once and then streams its rows through them. A malformed row (a null or non-finite
- * position, arrays of different lengths, a k-sigma tolerance without uncertainties) fails the
- * job with a {@link SparkRowException} naming the row's id and field. A well-formed spectrum the
+ * position, arrays of different lengths, a k-sigma tolerance without uncertainties, an id that
+ * another row also has) fails the job with a {@link SparkRowException} naming the row's id and
+ * field. A well-formed spectrum the
  * job refuses gets the job's error code and message in {@code failure_code} and {@code failure}.
  *
  * <p>Immutable and thread-safe; the operation is a lazy transformation.

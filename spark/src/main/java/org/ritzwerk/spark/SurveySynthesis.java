@@ -27,8 +27,9 @@ import org.ritzwerk.refdata.DataContext;
  *
  * <p>The parameters are broadcast once; each partition makes the data context once and each
  * species' level model at its first use. The result of a row depends on that row alone (its
- * seed), so it is the same on any partitioning and any number of cores. A malformed row fails
- * the job with a {@link SparkRowException} naming the row's id and field; a scene the engine
+ * seed), so it is the same on any partitioning and any number of cores. A malformed row (or one
+ * whose id another row has) fails the job with a {@link SparkRowException} naming the row's id
+ * and field; a scene the engine
  * refuses (no line carries light in the grid) gets its code and message in {@code failure_code}
  * and {@code failure}.
  *

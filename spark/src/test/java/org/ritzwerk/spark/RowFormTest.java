@@ -129,6 +129,31 @@ class RowFormTest {
         message = SurveyIdentificationTest.failure(() -> SurveyCalibration.of(CalibrationParameters.of(
                 List.of("Ne I"), List.of())).calibrate(spark.createDataFrame(exposures, Schemas.EXPOSURES)).count());
         assertTrue(message.contains("row 'exp-1', field 'id': the exposure table has 2 rows with this id"), message);
+
+        // Applying calibrations: the join on calibration_id needs one calibration per id, and science ids are keys.
+        List<Row> calibrations = new ArrayList<>(List.of(calibration("cal-1", 500.0), calibration("cal-2", 600.0)));
+        List<Row> science = new ArrayList<>(List.of(RowFactory.create("star-1", "cal-1", new double[] {1, 2, 3, 4}),
+                RowFactory.create("star-2", "cal-2", new double[] {4, 3, 2, 1})));
+        List<Row> applied = SurveyCalibration.apply(spark.createDataFrame(science, Schemas.SCIENCE),
+                spark.createDataFrame(calibrations, Schemas.CALIBRATIONS)).orderBy("id").collectAsList();
+        assertEquals(2, applied.size());
+        assertEquals(499.0, applied.get(0).getList(3).get(0)); // pixel 0: x = -1
+        calibrations.add(calibration("cal-2", 601.0));
+        message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(spark.createDataFrame(science,
+                Schemas.SCIENCE), spark.createDataFrame(calibrations, Schemas.CALIBRATIONS)).count());
+        assertEquals("row 'star-2', field 'calibration_id': the calibrations table has 2 rows with the id 'cal-2';"
+                + " each calibration needs its own id", message);
+        science.add(RowFactory.create("star-1", "cal-1", new double[] {1, 1, 1, 1}));
+        message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(spark.createDataFrame(science,
+                Schemas.SCIENCE), spark.createDataFrame(calibrations.subList(0, 2), Schemas.CALIBRATIONS)).count());
+        assertEquals("row 'star-1', field 'id': the science table has 2 rows with this id; each row needs its own id"
+                + " (the outputs are keyed by it)", message);
+    }
+
+    /** A saved calibration of 4 pixels, wavelength = a0 + 1 nm x (pixel - 1.5) / 1.5, air. */
+    private static Row calibration(String id, double a0) {
+        return RowFactory.create(id, 4, "air", 1, 1.5, 1.5, new double[] {a0, 1.0}, null, 0.0, 3.0, 0.01, 0.1, 1.0,
+                5, 0, 6, 5, 5, 1.0, 1.0, 0, new String[] {"Ne I 585.249"}, "test", null, null);
     }
 
     @Test

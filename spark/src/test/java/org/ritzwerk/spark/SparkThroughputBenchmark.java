@@ -46,8 +46,12 @@ import org.ritzwerk.refdata.DataContext;
  * {@code peaks} peaks (H I and He II multiplets, n up to 30, 360 to 710 nm, 5 sigma) and synthesis
  * of {@code scenes} spectra (H I, 2000 pixels, per-row seeds). Each measurement is one pass over
  * the whole table (single-shot time); the inputs are cached in Spark before the measurement, so it
- * times the operation, not the making of the table. Per-core overhead = Spark local[1] / library;
- * scaling = local[1] / local[2].
+ * times the operation, not the making of the table. The Spark operations write every column of
+ * every output row to Spark's no-op sink (counting one column would let Spark skip making the
+ * others). The identification baseline computes what an output row holds (the identification, the
+ * matched lines' positions, the missing strong lines, the species' presence);
+ * {@code identifyLibrarySearchOnly} is the search alone, for the engine's share. Per-core overhead
+ * = Spark local[1] / library; scaling = local[1] / local[2].
  *
  * <p>Not a test; run it with {@code spark/benchmark} (see that script). Spark needs the JVM
  * options of the module's surefire configuration, given to the forks here.
