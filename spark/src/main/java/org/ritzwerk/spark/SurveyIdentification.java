@@ -138,6 +138,7 @@ public final class SurveyIdentification {
         /** The species list whose names {@link #notations} holds (catalogues of one setup share it). */
         private List<Species> notationsOf;
         private UTF8String[] notations;
+        private String[] notationTexts;
 
         Setup(IdentificationParameters p) {
             this.p = p;
@@ -278,14 +279,17 @@ public final class SurveyIdentification {
             int[] missing = result.missingStrongLines();
             Object[] missingNames = new Object[missing.length];
             for (int k = 0; k < missing.length; k++) {
-                missingNames[k] = Catalyst.utf8(notations[lines.speciesIndex(missing[k])] + " "
+                missingNames[k] = Catalyst.utf8(notationTexts[lines.speciesIndex(missing[k])] + " "
                         + lines.label(missing[k]));
             }
             List<Identification.SpeciesPresence> presence = result.speciesPresence();
             Object[] presenceRows = new Object[presence.size()];
             for (int k = 0; k < presenceRows.length; k++) {
                 Identification.SpeciesPresence s = presence.get(k);
-                presenceRows[k] = Catalyst.row(strings.of(s.species().notation()), s.matched(), s.matchedByChance(),
+                // In the catalogue's species order; the name made once unless the engine says otherwise.
+                UTF8String species = k < notations.length && s.species() == notationsOf.get(k) ? notations[k]
+                        : strings.of(s.species().notation());
+                presenceRows[k] = Catalyst.row(species, s.matched(), s.matchedByChance(),
                         s.strongInRange(), s.strongMatched(), s.strongByChance(),
                         Catalyst.orNull(s.chanceProbability()), Catalyst.orNull(s.presence()));
             }
@@ -306,8 +310,10 @@ public final class SurveyIdentification {
             List<Species> list = lines.speciesList();
             if (list != notationsOf) {
                 notations = new UTF8String[list.size()];
+                notationTexts = new String[list.size()];
                 for (int s = 0; s < notations.length; s++) {
-                    notations[s] = strings.of(list.get(s).notation());
+                    notationTexts[s] = list.get(s).notation();
+                    notations[s] = strings.of(notationTexts[s]);
                 }
                 notationsOf = list;
             }

@@ -1,8 +1,10 @@
 package org.ritzwerk.spark;
 
+import java.lang.management.ManagementFactory;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import java.util.concurrent.TimeUnit;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
@@ -21,6 +23,7 @@ import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.annotations.TearDown;
 import org.openjdk.jmh.annotations.Warmup;
+import org.openjdk.jmh.infra.BenchmarkParams;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
@@ -128,6 +131,31 @@ public class SparkThroughputBenchmark {
         search = IdentificationSearch.of(Identifier.of(Tolerance.parse("5 sigma")));
         identification = SurveyIdentification.of(IdentificationParameters.inWindow(species, List.of(), 360, 710));
         synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 2000).withModel("qed", 30));
+    }
+
+    /** The process's CPU time at the start of the pass, ns. */
+    private long cpuAtStart;
+
+    @Setup(Level.Iteration)
+    public void startPass() {
+        cpuAtStart = processCpuNanos();
+    }
+
+    /**
+     * Prints the CPU time of the whole process (every thread: Spark's tasks and services, the
+     * garbage collector, the compiler) during the pass, a figure that a busy machine disturbs
+     * less than wall time: {@code cpu-ms <benchmark> cores=<n> <ms>}.
+     */
+    @TearDown(Level.Iteration)
+    public void endPass(BenchmarkParams params) {
+        long used = processCpuNanos() - cpuAtStart;
+        String name = params.getBenchmark().substring(params.getBenchmark().lastIndexOf('.') + 1);
+        System.out.printf(Locale.ROOT, "cpu-ms %s cores=%d %.1f%n", name, cores, used / 1e6);
+    }
+
+    private static long processCpuNanos() {
+        return ((com.sun.management.OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean())
+                .getProcessCpuTime();
     }
 
     @TearDown(Level.Trial)
