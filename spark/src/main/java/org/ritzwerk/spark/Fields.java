@@ -3,6 +3,8 @@ package org.ritzwerk.spark;
 import java.io.Serializable;
 import java.util.List;
 import org.apache.spark.sql.Row;
+import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.sql.catalyst.util.ArrayData;
 import org.apache.spark.sql.types.DataType;
 import org.apache.spark.sql.types.StructField;
 import org.apache.spark.sql.types.StructType;
@@ -10,7 +12,9 @@ import org.apache.spark.sql.types.StructType;
 /**
  * Where an input table keeps the columns an operation reads, checked against the documented
  * schema once on the driver, and the checked reading of one row's fields inside the tasks. Every
- * refusal names the row's id and the field.
+ * refusal names the row's id and the field. Rows are read either as generic {@link Row}s or, on
+ * the operations' fast path, in Spark's own form ({@link InternalRow}: arrays of doubles copied
+ * out in one piece, no boxing), with the same checks and messages.
  */
 final class Fields implements Serializable {
     private static final long serialVersionUID = 1L;
@@ -176,6 +180,121 @@ final class Fields implements Serializable {
 
     /** @return the doubles, as {@link #optionalDoubles} but required */
     double[] doubles(Row row, String id, int field, int length, double floor, boolean above) {
+        double[] values = optionalDoubles(row, id, field, length, floor, above);
+        if (values == null) {
+            throw bad(id, field, "is null");
+        }
+        return values;
+    }
+
+    /** @return the column names of the documented fields present in the table, in documented order */
+    String[] present() {
+        int count = 0;
+        for (int at : index) {
+            count += at < 0 ? 0 : 1;
+        }
+        String[] out = new String[count];
+        int k = 0;
+        for (int f = 0; f < index.length; f++) {
+            if (index[f] >= 0) {
+                out[k++] = names[f];
+            }
+        }
+        return out;
+    }
+
+    // ---- Spark's own row form (the fast path) ----
+
+    private boolean isNull(InternalRow row, int field) {
+        return index[field] < 0 || row.isNullAt(index[field]);
+    }
+
+    /** @return the row's id (field 0, a required string) */
+    String id(InternalRow row) {
+        if (row.isNullAt(index[0])) {
+            throw new SparkRowException(SparkRowException.BAD_FIELD, "null", names[0], "the id is null");
+        }
+        return row.getUTF8String(index[0]).toString();
+    }
+
+    /** @return the double, checked not null and finite */
+    double number(InternalRow row, String id, int field) {
+        if (isNull(row, field)) {
+            throw bad(id, field, "is null");
+        }
+        double value = row.getDouble(index[field]);
+        if (!Double.isFinite(value)) {
+            throw bad(id, field, "is " + value + ", not a finite number");
+        }
+        return value;
+    }
+
+    /** @return the double, or NaN when the column is absent or null; a present value checked finite */
+    double optionalNumber(InternalRow row, String id, int field) {
+        return isNull(row, field) ? Double.NaN : number(row, id, field);
+    }
+
+    /** @return the long, checked not null */
+    long whole(InternalRow row, String id, int field) {
+        if (isNull(row, field)) {
+            throw bad(id, field, "is null");
+        }
+        return row.getLong(index[field]);
+    }
+
+    /** @return the strings, checked not null, not empty and without null or blank elements */
+    String[] strings(InternalRow row, String id, int field) {
+        if (isNull(row, field)) {
+            throw bad(id, field, "is null");
+        }
+        ArrayData list = row.getArray(index[field]);
+        int n = list.numElements();
+        if (n == 0) {
+            throw bad(id, field, "is empty");
+        }
+        String[] values = new String[n];
+        for (int i = 0; i < n; i++) {
+            String value = list.isNullAt(i) ? null : list.getUTF8String(i).toString();
+            if (value == null || value.isBlank()) {
+                throw bad(id, field, "element " + i + " is " + (value == null ? "null" : "blank"));
+            }
+            values[i] = value;
+        }
+        return values;
+    }
+
+    /**
+     * As {@link #optionalDoubles(Row, String, int, int, double, boolean)}: the array copied out
+     * in one piece, then checked element by element.
+     */
+    double[] optionalDoubles(InternalRow row, String id, int field, int length, double floor, boolean above) {
+        if (isNull(row, field)) {
+            return null;
+        }
+        ArrayData list = row.getArray(index[field]);
+        int n = list.numElements();
+        if (length >= 0 && n != length) {
+            throw bad(id, field, "has " + n + " elements, but " + names[1] + " has " + length);
+        }
+        if (n == 0) {
+            throw bad(id, field, "is empty");
+        }
+        double[] values = list.toDoubleArray(); // a null element's slot holds no value; it is refused below
+        for (int i = 0; i < n; i++) {
+            if (list.isNullAt(i)) {
+                throw bad(id, field, "element " + i + " is null");
+            }
+            double value = values[i];
+            if (!Double.isFinite(value) || value < floor || above && value == floor) {
+                throw bad(id, field, "element " + i + " is " + value + "; each must be finite and "
+                        + (above ? "above " : "at least ") + floor);
+            }
+        }
+        return values;
+    }
+
+    /** @return the doubles, as {@link #optionalDoubles(InternalRow, String, int, int, double, boolean)} but required */
+    double[] doubles(InternalRow row, String id, int field, int length, double floor, boolean above) {
         double[] values = optionalDoubles(row, id, field, length, floor, above);
         if (values == null) {
             throw bad(id, field, "is null");

@@ -12,6 +12,21 @@ import org.apache.spark.sql.types.StructType;
  * columns in this order. Arrays hold no null elements; a nullable column may be null as a whole.
  * Doubles that a job leaves undefined (a residual of an unexplained peak, a presence without
  * strong lines) are null, never NaN.
+ *
+ * <p><b>Ids are keys.</b> In every input table whose {@code id} names a spectrum, an exposure or
+ * a scene ({@link #PEAK_LISTS}, {@link #EXPOSURES}, {@link #SCENES}, {@link #SCIENCE}), and in
+ * the {@link #CALIBRATIONS} that {@link SurveyCalibration#apply} joins on, each row needs its own
+ * id: the outputs are keyed by it (the per-peak table, a calibration's science spectra), so a
+ * repeated id (typically the same file ingested twice) fails the job with a
+ * {@link SparkRowException} naming the id, e.g. {@code row 'spectrum-7', field 'id': the
+ * peak-list table has 2 rows with this id; each row needs its own id (the outputs are keyed by
+ * it)}. The ids are counted by Spark in the operation's own job (one more read of the id column
+ * and a shuffle of the distinct ids): persist an input whose making is expensive.
+ *
+ * <p><b>Array columns.</b> Arrays of doubles may come with or without null elements allowed in
+ * their type (Parquet files give them with); a null element is refused naming its row, field and
+ * index. The operations read these columns in Spark's own form, each array copied out in one
+ * piece, and only the columns named here (others are never read).
  */
 public final class Schemas {
 

@@ -6,14 +6,25 @@ import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
 import java.util.function.Function;
-import org.apache.spark.api.java.function.MapPartitionsFunction;
+import org.apache.spark.api.java.JavaSparkContext;
+import org.apache.spark.api.java.function.FlatMapFunction;
 import org.apache.spark.broadcast.Broadcast;
+import org.apache.spark.rdd.RDD;
+import org.apache.spark.sql.Column;
+import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
+import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.sql.types.StructType;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.refdata.DataContext;
+
+import static org.apache.spark.sql.functions.broadcast;
+import static org.apache.spark.sql.functions.col;
+import static org.apache.spark.sql.functions.count;
+import static org.apache.spark.sql.functions.lit;
 
 /** What the operations' per-partition setups share: the data context and the species' models. */
 final class Setups {
@@ -88,51 +99,123 @@ final class Setups {
         };
     }
 
+    /** The column the id check adds: how many rows share this row's id, null when it is the only one. */
+    static final String COPIES = "_ritzwerk_id_copies";
+    private static final String KEY = "_ritzwerk_id";
+
     /**
-     * What a partition's setup does with one row; made once per partition from the broadcast
-     * parameters and the input's fields.
+     * The documented columns present in a table (in documented order, so that Spark reads no
+     * other column) and the id check: a column {@link #COPIES} holding, for a row whose id
+     * another row shares, the number of rows with that id. The ids are counted by Spark in the
+     * same job (one extra read of the id column, a shuffle of the distinct ids, and the repeated
+     * ones broadcast back), so a repeated id costs nothing on the driver.
+     */
+    static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields) {
+        String[] names = fields.present();
+        Column[] columns = new Column[names.length];
+        for (int k = 0; k < names.length; k++) {
+            columns[k] = table.col(names[k]);
+        }
+        Dataset<Row> selected = table.select(columns);
+        Dataset<Row> repeated = selected.groupBy(col(names[0]).as(KEY)).agg(count(lit(1)).as(COPIES))
+                .where(col(COPIES).gt(1));
+        Column[] out = new Column[names.length + 1];
+        for (int k = 0; k < names.length; k++) {
+            out[k] = selected.col(names[k]);
+        }
+        out[names.length] = repeated.col(COPIES);
+        return selected.join(broadcast(repeated), selected.col(names[0]).equalTo(repeated.col(KEY)), "left_outer")
+                .select(out);
+    }
+
+    /**
+     * @param copies how many rows share the id (from {@link #COPIES})
+     * @return the refusal of a row whose id is not unique
+     */
+    static SparkRowException repeatedId(String id, long copies, String table) {
+        return new SparkRowException(SparkRowException.BAD_FIELD, id, "id", "the " + table + " table has " + copies
+                + " rows with this id; each row needs its own id (the outputs are keyed by it)");
+    }
+
+    /**
+     * What a partition's setup does with one row in Spark's form; made once per partition from
+     * the broadcast parameters and the input's fields.
      *
      * @param <P> the parameter record
      */
     @FunctionalInterface
-    interface RowJob<P> extends Serializable {
+    interface InternalJob<P> extends Serializable {
         /**
          * @param parameters the broadcast parameters
          * @param fields     the input's fields
-         * @return the partition's row mapping, with its setup made
+         * @return the partition's row mapping, with its setup made; its result may not be
+         *         reused by the next call
          */
-        Function<Row, Row> setUp(P parameters, Fields fields);
+        Function<InternalRow, InternalRow> setUp(P parameters, Fields fields);
     }
 
     /**
-     * One partition: the job's setup once (from the parameters broadcast once per job), then one
-     * output row per input row, lazily.
+     * An operation on the fast path (see {@link Catalyst}): the documented columns with the id
+     * check, read in Spark's form, one output row per input row made by the job's per-partition
+     * setup, as a table of the output schema. Lazy: nothing runs until an action on the result.
+     *
+     * @param table      the input
+     * @param expected   its documented schema
+     * @param role       the table's role, for messages
+     * @param parameters broadcast once
+     * @param job        the per-partition setup and row mapping
+     * @param output     the output schema
+     * @param <P>        the parameter record
+     * @return the output table
+     * @throws SparkRowException when a column is missing or has another type
+     */
+    static <P> Dataset<Row> run(Dataset<Row> table, StructType expected, String role, P parameters,
+            InternalJob<P> job, StructType output) {
+        Dataset<Row> checked = checkedColumns(table, Fields.of(table.schema(), expected, role));
+        Fields fields = Fields.of(checked.schema(), expected, role);
+        int copies = checked.schema().fieldIndex(COPIES);
+        Broadcast<P> shared = JavaSparkContext.fromSparkContext(table.sparkSession().sparkContext())
+                .broadcast(parameters);
+        RDD<InternalRow> in = Catalyst.rows(checked);
+        RDD<InternalRow> out = in.toJavaRDD().mapPartitions(new InternalTask<>(shared, fields, copies, role, job))
+                .rdd();
+        return Catalyst.frame(table.sparkSession(), out, output);
+    }
+
+    /**
+     * One partition on the fast path: the job's setup once, then one output row per input row,
+     * lazily; a row whose id is repeated is refused before its work.
      *
      * @param <P> the parameter record
      */
-    static final class PartitionTask<P> implements MapPartitionsFunction<Row, Row> {
+    static final class InternalTask<P> implements FlatMapFunction<Iterator<InternalRow>, InternalRow> {
         private static final long serialVersionUID = 1L;
         private final Broadcast<P> shared;
         private final Fields fields;
-        private final RowJob<P> job;
+        private final int copies;
+        private final String role;
+        private final InternalJob<P> job;
 
-        PartitionTask(Broadcast<P> shared, Fields fields, RowJob<P> job) {
+        InternalTask(Broadcast<P> shared, Fields fields, int copies, String role, InternalJob<P> job) {
             this.shared = shared;
             this.fields = fields;
+            this.copies = copies;
+            this.role = role;
             this.job = job;
         }
 
         @Override
-        public Iterator<Row> call(Iterator<Row> rows) {
+        public Iterator<InternalRow> call(Iterator<InternalRow> rows) {
             if (!rows.hasNext()) {
                 return rows;
             }
-            return map(rows, job.setUp(shared.value(), fields));
+            Function<InternalRow, InternalRow> mapping = job.setUp(shared.value(), fields);
+            return map(rows, row -> {
+                if (!row.isNullAt(copies)) {
+                    throw repeatedId(fields.id(row), row.getLong(copies), role);
+                }
+                return mapping.apply(row);
+            });
         }
-    }
-
-    /** @return the value, or null for NaN (undefined doubles are null in the output tables) */
-    static Double orNull(double value) {
-        return Double.isNaN(value) ? null : value;
     }
 }

@@ -1,18 +1,19 @@
 package org.ritzwerk.spark;
 
 import static org.apache.spark.sql.functions.col;
+import static org.apache.spark.sql.functions.count;
+import static org.apache.spark.sql.functions.lit;
 
 import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
 import java.util.Objects;
-import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.api.java.function.MapPartitionsFunction;
-import org.apache.spark.broadcast.Broadcast;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Encoders;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.catalyst.InternalRow;
 import org.apache.spark.sql.types.StructType;
 import org.ritzwerk.RitzwerkException;
 import org.ritzwerk.data.DispersionPolynomial;
@@ -38,8 +39,8 @@ import org.ritzwerk.refdata.DataContext;
  * {@code pixelCentreWavelengthSigmas}).
  *
  * <p>The parameters are broadcast once; each partition builds the lamp set and the calibrator
- * once. A malformed row fails the job with a {@link SparkRowException} naming the row's id and
- * field; an exposure the calibrator refuses gets its error code and message in
+ * once. A malformed row (or one whose id another row has) fails the job with a
+ * {@link SparkRowException} naming the row's id and field; an exposure the calibrator refuses gets its error code and message in
  * {@code failure_code} and {@code failure}.
  *
  * <p>Immutable and thread-safe; the operations are lazy transformations.
@@ -72,13 +73,10 @@ public final class SurveyCalibration {
      * @throws SparkRowException when a column is missing or has another type
      */
     public Dataset<Row> calibrate(Dataset<Row> exposures) {
-        Fields fields = Fields.of(exposures.schema(), Schemas.EXPOSURES, "exposure");
-        Broadcast<CalibrationParameters> shared = JavaSparkContext
-                .fromSparkContext(exposures.sparkSession().sparkContext()).broadcast(parameters);
-        return exposures.mapPartitions(new Setups.PartitionTask<>(shared, fields, (p, f) -> {
+        return Setups.run(exposures, Schemas.EXPOSURES, "exposure", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.calibrate(f, row);
-        }), Encoders.row(Schemas.CALIBRATIONS));
+        }, Schemas.CALIBRATIONS);
     }
 
     /** The columns of a calibration that applying it reads, in this order after the science columns. */
@@ -92,27 +90,30 @@ public final class SurveyCalibration {
      *                     {@code science.calibration_id = calibrations.id} (Spark broadcasts the
      *                     calibrations when they are small)
      * @return every science spectrum with its wavelengths, {@link Schemas#CALIBRATED} (lazy); a
-     *         spectrum whose calibration is missing, refused, or made for another pixel count fails
-     *         the job with a {@link SparkRowException} naming the spectrum
+     *         spectrum whose calibration is missing, refused, made for another pixel count or not
+     *         the only one with its id, and a spectrum whose own id another row has, fail the job
+     *         with a {@link SparkRowException} naming the spectrum
      */
     public static Dataset<Row> apply(Dataset<Row> science, Dataset<Row> calibrations) {
-        Fields.of(science.schema(), Schemas.SCIENCE, "science");
+        Dataset<Row> left = Setups.checkedColumns(science, Fields.of(science.schema(), Schemas.SCIENCE, "science"));
         StructType wanted = new StructType();
         for (String name : APPLIED) {
             wanted = wanted.add(Schemas.CALIBRATIONS.apply(name));
         }
         Fields.of(calibrations.schema(), wanted, "calibration");
-        Dataset<Row> left = science.select(col("id"), col("calibration_id"), col("counts"));
         org.apache.spark.sql.Column[] right = new org.apache.spark.sql.Column[APPLIED.length];
         for (int k = 0; k < APPLIED.length; k++) {
             right[k] = col(APPLIED[k]).as("c_" + APPLIED[k]);
         }
+        // How many calibrations carry each id: the join would give a spectrum one row per copy.
+        Dataset<Row> copies = calibrations.groupBy(col("id").as("c_key")).agg(count(lit(1)).as("c_copies"));
         Dataset<Row> solutions = calibrations.select(right);
+        solutions = solutions.join(copies, solutions.col("c_id").equalTo(copies.col("c_key")), "left");
         Dataset<Row> joined = left.join(solutions, left.col("calibration_id").equalTo(solutions.col("c_id")), "left")
                 .select(left.col("id"), left.col("calibration_id"), left.col("counts"), col("c_id"), col("c_pixels"),
                         col("c_medium"), col("c_centre_pixel"), col("c_half_range"), col("c_coefficients"),
                         col("c_covariance"), col("c_lowest_pixel"), col("c_highest_pixel"), col("c_failure_code"),
-                        col("c_failure"));
+                        col("c_failure"), left.col(Setups.COPIES), col("c_copies"));
         return joined.mapPartitions(new ApplyTask(), Encoders.row(Schemas.CALIBRATED));
     }
 
@@ -137,7 +138,7 @@ public final class SurveyCalibration {
             this.prior = p.prior();
         }
 
-        Row calibrate(Fields f, Row row) {
+        InternalRow calibrate(Fields f, InternalRow row) {
             String id = f.id(row);
             double[] counts = f.doubles(row, id, 1, -1, Double.NEGATIVE_INFINITY, false);
             double[] sigmas = f.optionalDoubles(row, id, 2, counts.length, 0, false);
@@ -147,8 +148,9 @@ public final class SurveyCalibration {
                 calibration = calibrator.calibrate(CalibrationProblem.builder(counts).sigmas(sigmas).lamp(lamp)
                         .prior(prior).source(id).build());
             } catch (RitzwerkException e) {
-                return RowFactory.create(id, pixels, null, null, null, null, null, null, null, null, null, null, null,
-                        null, null, null, null, null, null, null, null, null, null, e.code(), e.getMessage());
+                return Catalyst.row(Catalyst.utf8(id), pixels, null, null, null, null, null, null, null, null, null,
+                        null, null, null, null, null, null, null, null, null, null, null, null,
+                        Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()));
             }
             DispersionSolution solution = calibration.solution();
             DispersionPolynomial polynomial = solution.polynomial();
@@ -161,13 +163,19 @@ public final class SurveyCalibration {
                     System.arraycopy(c[i], 0, covariance, i * k, k);
                 }
             }
-            return RowFactory.create(id, pixels, polynomial.medium().spec(), solution.degree(),
-                    polynomial.centrePixel(), polynomial.halfRange(), polynomial.coefficients(), covariance,
-                    polynomial.lowestPixel(), polynomial.highestPixel(), finite(solution.rmsNm()),
-                    finite(solution.rmsPixels()), finite(solution.reducedChiSquare()), solution.usedCount(),
-                    solution.rejectedCount(), calibration.peaks().size(), calibration.strongPeaks(),
-                    calibration.strongMatched(), finite(calibration.matchedFraction()), finite(calibration.coverage()),
-                    calibration.saturatedPeaks(), calibration.pairLabels().toArray(new String[0]), calibration.description(), null, null);
+            List<String> labels = calibration.pairLabels();
+            Object[] lines = new Object[labels.size()];
+            for (int k = 0; k < lines.length; k++) {
+                lines[k] = Catalyst.utf8(labels.get(k));
+            }
+            return Catalyst.row(Catalyst.utf8(id), pixels, Catalyst.utf8(polynomial.medium().spec()), solution.degree(),
+                    polynomial.centrePixel(), polynomial.halfRange(), Catalyst.doubles(polynomial.coefficients()),
+                    Catalyst.doubles(covariance), polynomial.lowestPixel(), polynomial.highestPixel(),
+                    finite(solution.rmsNm()), finite(solution.rmsPixels()), finite(solution.reducedChiSquare()),
+                    solution.usedCount(), solution.rejectedCount(), calibration.peaks().size(),
+                    calibration.strongPeaks(), calibration.strongMatched(), finite(calibration.matchedFraction()),
+                    finite(calibration.coverage()), calibration.saturatedPeaks(), Catalyst.array(lines),
+                    Catalyst.utf8(calibration.description()), null, null);
         }
 
         private static Double finite(double value) {
@@ -200,9 +208,16 @@ public final class SurveyCalibration {
             if (row.isNullAt(2)) {
                 throw bad(id, "counts", "is null");
             }
+            if (!row.isNullAt(14)) {
+                throw Setups.repeatedId(id, row.getLong(14), "science");
+            }
             List<Object> counts = row.getList(2);
             if (row.isNullAt(3)) {
                 throw bad(id, "calibration_id", "no calibration has the id '" + calibrationId + "'");
+            }
+            if (row.getLong(15) > 1) {
+                throw bad(id, "calibration_id", "the calibrations table has " + row.getLong(15) + " rows with the id '"
+                        + calibrationId + "'; each calibration needs its own id");
             }
             if (!row.isNullAt(12)) {
                 throw bad(id, "calibration_id", "calibration '" + calibrationId + "' was refused ("

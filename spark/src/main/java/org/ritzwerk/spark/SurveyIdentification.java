@@ -9,18 +9,16 @@ import static org.apache.spark.sql.functions.sort_array;
 import static org.apache.spark.sql.functions.struct;
 import static org.apache.spark.sql.functions.when;
 
-import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Objects;
-import org.apache.spark.api.java.JavaSparkContext;
-import org.apache.spark.broadcast.Broadcast;
 import org.apache.spark.sql.Column;
 import org.apache.spark.sql.Dataset;
-import org.apache.spark.sql.Encoders;
 import org.apache.spark.sql.Row;
-import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.unsafe.types.UTF8String;
 import org.ritzwerk.RitzwerkException;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
@@ -45,8 +43,9 @@ import org.ritzwerk.refdata.DataContext;
  *
  * <p>The parameters are broadcast once; each partition builds the candidate catalogue and the
  * search once and then streams its rows through them. A malformed row (a null or non-finite
- * position, arrays of different lengths, a k-sigma tolerance without uncertainties) fails the
- * job with a {@link SparkRowException} naming the row's id and field. A well-formed spectrum the
+ * position, arrays of different lengths, a k-sigma tolerance without uncertainties, an id that
+ * another row also has) fails the job with a {@link SparkRowException} naming the row's id and
+ * field. A well-formed spectrum the
  * job refuses gets the job's error code and message in {@code failure_code} and {@code failure}.
  *
  * <p>Immutable and thread-safe; the operation is a lazy transformation.
@@ -80,13 +79,10 @@ public final class SurveyIdentification {
      * @throws SparkRowException when a column is missing or has another type
      */
     public Result identify(Dataset<Row> peakLists) {
-        Fields fields = Fields.of(peakLists.schema(), Schemas.PEAK_LISTS, "peak-list");
-        Broadcast<IdentificationParameters> shared = JavaSparkContext
-                .fromSparkContext(peakLists.sparkSession().sparkContext()).broadcast(parameters);
-        return new Result(peakLists.mapPartitions(new Setups.PartitionTask<>(shared, fields, (p, f) -> {
+        return new Result(Setups.run(peakLists, Schemas.PEAK_LISTS, "peak-list", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.identify(f, row);
-        }), Encoders.row(Schemas.IDENTIFIED_SPECTRA)));
+        }, Schemas.IDENTIFIED_SPECTRA));
     }
 
     /**
@@ -122,6 +118,10 @@ public final class SurveyIdentification {
         }
     }
 
+    private static final UTF8String MATCHED = UTF8String.fromString("matched");
+    private static final UTF8String AMBIGUOUS = UTF8String.fromString("ambiguous");
+    private static final UTF8String UNEXPLAINED = UTF8String.fromString("unexplained");
+
     /** The candidate lines and the search of one partition. Not thread-safe (one task). */
     private static final class Setup {
         private final IdentificationParameters p;
@@ -134,6 +134,11 @@ public final class SurveyIdentification {
         private final boolean kSigma;
         /** The fixed window's candidates, or null for a window per spectrum. */
         private final Candidates fixed;
+        private final Catalyst.Strings strings = new Catalyst.Strings();
+        /** The species list whose names {@link #notations} holds (catalogues of one setup share it). */
+        private List<Species> notationsOf;
+        private UTF8String[] notations;
+        private String[] notationTexts;
 
         Setup(IdentificationParameters p) {
             this.p = p;
@@ -180,7 +185,7 @@ public final class SurveyIdentification {
             return builder.build();
         }
 
-        Row identify(Fields f, Row row) {
+        InternalRow identify(Fields f, InternalRow row) {
             String id = f.id(row);
             double[] positions = f.doubles(row, id, 1, -1, 0, true);
             int n = positions.length;
@@ -209,16 +214,16 @@ public final class SurveyIdentification {
             try {
                 Candidates candidates = fixed != null ? fixed : candidates(search.candidateWindow(peaks));
                 IdentificationSearch.Report report = search.run(peaks, candidates.catalog());
-                List<Row> plasma = null;
+                Object[] plasma = null;
                 if (p.plasma()) {
                     plasma = plasmaRows(estimate.estimate(new PlasmaEstimate.Peaks(positions, unit, medium,
                             orNaN(intensities, n), orNaN(widths, n)), report.identification(), report.lines(),
                             candidates));
                 }
-                return row(id, positions, report, plasma == null ? null : plasma.toArray(new Row[0]));
+                return row(id, positions, report, plasma);
             } catch (RitzwerkException e) {
-                return RowFactory.create(id, null, null, null, null, null, null, null, null, null, null, null, null,
-                        null, e.code(), e.getMessage());
+                return Catalyst.row(Catalyst.utf8(id), null, null, null, null, null, null, null, null, null, null, null,
+                        null, null, Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()));
             }
         }
 
@@ -231,38 +236,64 @@ public final class SurveyIdentification {
             return none;
         }
 
-        private Row row(String id, double[] positions, IdentificationSearch.Report report, Row[] plasma) {
+        /**
+         * The output row, in Spark's form: each matched line's position converted in one call for
+         * the whole list (the conversion is element by element, so each value is the one a call
+         * per line gives), species names and labels in Spark's form made once per partition.
+         */
+        private InternalRow row(String id, double[] positions, IdentificationSearch.Report report, Object[] plasma) {
             Identification result = report.identification();
             LineCatalog lines = report.lines();
-            List<Row> peakRows = new ArrayList<>(positions.length);
-            double[] converted = new double[1];
-            for (int i = 0; i < positions.length; i++) {
+            int n = positions.length;
+            UTF8String[] notations = notations(lines);
+            double[] matched = new double[n];
+            int m = 0;
+            for (int i = 0; i < n; i++) {
                 int j = result.line(i);
-                String status = result.status(i) == Identification.MATCHED ? "matched"
-                        : result.status(i) == Identification.AMBIGUOUS ? "ambiguous" : "unexplained";
+                if (j >= 0) {
+                    matched[m++] = lines.wavelength(j);
+                }
+            }
+            double[] converted = new double[m];
+            if (m > 0) {
+                SpectralArrays.convert(m == n ? matched : Arrays.copyOf(matched, m), Unit.METRE, Medium.vacuum(), unit,
+                        medium, converted);
+            }
+            Object[] peakRows = new Object[n];
+            for (int i = 0, k = 0; i < n; i++) {
+                int j = result.line(i);
+                int status = result.status(i);
+                UTF8String statusText = status == Identification.MATCHED ? MATCHED
+                        : status == Identification.AMBIGUOUS ? AMBIGUOUS : UNEXPLAINED;
                 if (j < 0) {
-                    peakRows.add(RowFactory.create(i, positions[i], status, null, null, null, null, null));
+                    peakRows[i] = Catalyst.row(i, positions[i], statusText, null, null, null, null, null);
                     continue;
                 }
-                SpectralArrays.convert(new double[] {lines.wavelength(j)}, Unit.METRE, Medium.vacuum(), unit, medium,
-                        converted);
-                peakRows.add(RowFactory.create(i, positions[i], status, lines.species(j).notation(), lines.label(j),
-                        converted[0], positions[i] - converted[0], Setups.orNull(result.normalizedResidual(i))));
+                double line = converted[k++];
+                peakRows[i] = Catalyst.row(i, positions[i], statusText, notations[lines.speciesIndex(j)],
+                        strings.of(lines.label(j)), line, positions[i] - line,
+                        Catalyst.orNull(result.normalizedResidual(i)));
             }
             ShiftSearch.Fit velocity = report.velocity().orElse(null);
             ShiftSearch.Fit offset = report.offset().orElse(null);
             int[] missing = result.missingStrongLines();
-            String[] missingNames = new String[missing.length];
+            Object[] missingNames = new Object[missing.length];
             for (int k = 0; k < missing.length; k++) {
-                missingNames[k] = lines.species(missing[k]).notation() + " " + lines.label(missing[k]);
+                missingNames[k] = Catalyst.utf8(notationTexts[lines.speciesIndex(missing[k])] + " "
+                        + lines.label(missing[k]));
             }
-            List<Row> presence = new ArrayList<>();
-            for (Identification.SpeciesPresence s : result.speciesPresence()) {
-                presence.add(RowFactory.create(s.species().notation(), s.matched(), s.matchedByChance(),
-                        s.strongInRange(), s.strongMatched(), s.strongByChance(), Setups.orNull(s.chanceProbability()),
-                        Setups.orNull(s.presence())));
+            List<Identification.SpeciesPresence> presence = result.speciesPresence();
+            Object[] presenceRows = new Object[presence.size()];
+            for (int k = 0; k < presenceRows.length; k++) {
+                Identification.SpeciesPresence s = presence.get(k);
+                // In the catalogue's species order; the name made once unless the engine says otherwise.
+                UTF8String species = k < notations.length && s.species() == notationsOf.get(k) ? notations[k]
+                        : strings.of(s.species().notation());
+                presenceRows[k] = Catalyst.row(species, s.matched(), s.matchedByChance(),
+                        s.strongInRange(), s.strongMatched(), s.strongByChance(),
+                        Catalyst.orNull(s.chanceProbability()), Catalyst.orNull(s.presence()));
             }
-            return RowFactory.create(id, peakRows.toArray(new Row[0]), result.count(Identification.MATCHED),
+            return Catalyst.row(Catalyst.utf8(id), Catalyst.array(peakRows), result.count(Identification.MATCHED),
                     result.count(Identification.AMBIGUOUS), result.count(Identification.UNEXPLAINED),
                     velocity == null || velocity.matches() == 0 ? null : velocity.velocity(),
                     velocity == null ? null : sigma(velocity.velocityUncertainty(), velocity.matches()),
@@ -270,7 +301,23 @@ public final class SurveyIdentification {
                     offset == null || offset.matches() == 0 ? null : offset.value() * 1e9,
                     offset == null ? null : sigma(offset.uncertainty() * 1e9, offset.matches()),
                     offset == null ? null : offset.matches(),
-                    missingNames, presence.toArray(new Row[0]), plasma, null, null);
+                    Catalyst.array(missingNames), Catalyst.array(presenceRows),
+                    plasma == null ? null : Catalyst.array(plasma), null, null);
+        }
+
+        /** @return the catalogue's species names in Spark's form, by species index */
+        private UTF8String[] notations(LineCatalog lines) {
+            List<Species> list = lines.speciesList();
+            if (list != notationsOf) {
+                notations = new UTF8String[list.size()];
+                notationTexts = new String[list.size()];
+                for (int s = 0; s < notations.length; s++) {
+                    notationTexts[s] = list.get(s).notation();
+                    notations[s] = strings.of(notationTexts[s]);
+                }
+                notationsOf = list;
+            }
+            return notations;
         }
 
         /** One line gives no uncertainty; nor does a fit whose uncertainty is not finite. */
@@ -278,13 +325,14 @@ public final class SurveyIdentification {
             return lines < 2 || !Double.isFinite(value) ? null : value;
         }
 
-        private static List<Row> plasmaRows(List<PlasmaEstimate.Row> rows) {
-            List<Row> out = new ArrayList<>(rows.size());
-            for (PlasmaEstimate.Row r : rows) {
-                out.add(RowFactory.create(r.species().notation(), r.quantity().id(),
+        private Object[] plasmaRows(List<PlasmaEstimate.Row> rows) {
+            Object[] out = new Object[rows.size()];
+            for (int k = 0; k < out.length; k++) {
+                PlasmaEstimate.Row r = rows.get(k);
+                out[k] = Catalyst.row(strings.of(r.species().notation()), strings.of(r.quantity().id()),
                         r.value().isPresent() ? r.value().getAsDouble() : null,
-                        r.uncertainty().isPresent() ? r.uncertainty().getAsDouble() : null, r.quantity().unit(),
-                        r.lines(), r.note()));
+                        r.uncertainty().isPresent() ? r.uncertainty().getAsDouble() : null,
+                        strings.of(r.quantity().unit()), Catalyst.utf8(r.lines()), Catalyst.utf8(r.note()));
             }
             return out;
         }

@@ -1,16 +1,12 @@
 package org.ritzwerk.spark;
 
-import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
-import org.apache.spark.api.java.JavaSparkContext;
-import org.apache.spark.broadcast.Broadcast;
 import org.apache.spark.sql.Dataset;
-import org.apache.spark.sql.Encoders;
 import org.apache.spark.sql.Row;
-import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.catalyst.InternalRow;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.synth.Instrument;
@@ -31,8 +27,9 @@ import org.ritzwerk.refdata.DataContext;
  *
  * <p>The parameters are broadcast once; each partition makes the data context once and each
  * species' level model at its first use. The result of a row depends on that row alone (its
- * seed), so it is the same on any partitioning and any number of cores. A malformed row fails
- * the job with a {@link SparkRowException} naming the row's id and field; a scene the engine
+ * seed), so it is the same on any partitioning and any number of cores. A malformed row (or one
+ * whose id another row has) fails the job with a {@link SparkRowException} naming the row's id
+ * and field; a scene the engine
  * refuses (no line carries light in the grid) gets its code and message in {@code failure_code}
  * and {@code failure}.
  *
@@ -65,13 +62,10 @@ public final class SurveySynthesis {
      * @throws SparkRowException when a column is missing or has another type
      */
     public Dataset<Row> synthesise(Dataset<Row> scenes) {
-        Fields fields = Fields.of(scenes.schema(), Schemas.SCENES, "scene");
-        Broadcast<SynthesisParameters> shared = JavaSparkContext
-                .fromSparkContext(scenes.sparkSession().sparkContext()).broadcast(parameters);
-        return scenes.mapPartitions(new Setups.PartitionTask<>(shared, fields, (p, f) -> {
+        return Setups.run(scenes, Schemas.SCENES, "scene", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.synthesise(f, row);
-        }), Encoders.row(Schemas.SPECTRA));
+        }, Schemas.SPECTRA);
     }
 
     /** The data context, grid and species models of one partition. Not thread-safe (one task). */
@@ -82,6 +76,7 @@ public final class SurveySynthesis {
         private final Medium medium;
         private final Renderer renderer;
         private final Map<String, Setups.Atoms> species = new HashMap<>();
+        private final Catalyst.Strings strings = new Catalyst.Strings();
 
         Setup(SynthesisParameters p) {
             this.p = p;
@@ -105,7 +100,7 @@ public final class SurveySynthesis {
             return atoms;
         }
 
-        Row synthesise(Fields f, Row row) {
+        InternalRow synthesise(Fields f, InternalRow row) {
             String id = f.id(row);
             String[] names = f.strings(row, id, 1);
             double[] abundances = f.optionalDoubles(row, id, 2, names.length, 0, true);
@@ -159,15 +154,17 @@ public final class SurveySynthesis {
             try {
                 spectrum = builder.build().render(1);
             } catch (SceneException e) {
-                return RowFactory.create(id, null, null, null, e.code(), e.getMessage());
+                return Catalyst.row(Catalyst.utf8(id), null, null, null, Catalyst.utf8(e.code()),
+                        Catalyst.utf8(e.getMessage()));
             }
             Scene.Lines lines = spectrum.lines();
-            List<Row> truth = new ArrayList<>(lines.size());
-            for (int i = 0; i < lines.size(); i++) {
-                truth.add(RowFactory.create(lines.label(i), lines.position(i), lines.photons(i), lines.gaussianFwhm(i),
-                        lines.lorentzFwhm(i), spectrum.lineCounts(i)));
+            Object[] truth = new Object[lines.size()];
+            for (int i = 0; i < truth.length; i++) {
+                truth[i] = Catalyst.row(strings.of(lines.label(i)), lines.position(i), lines.photons(i),
+                        lines.gaussianFwhm(i), lines.lorentzFwhm(i), spectrum.lineCounts(i));
             }
-            return RowFactory.create(id, spectrum.counts(), spectrum.expectedCounts(), truth.toArray(new Row[0]), null, null);
+            return Catalyst.row(Catalyst.utf8(id), Catalyst.doubles(spectrum.counts()),
+                    Catalyst.doubles(spectrum.expectedCounts()), Catalyst.array(truth), null, null);
         }
     }
 }

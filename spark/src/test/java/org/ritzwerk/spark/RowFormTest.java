@@ -1,0 +1,175 @@
+package org.ritzwerk.spark;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
+import org.apache.spark.sql.SparkSession;
+import org.apache.spark.sql.types.DataTypes;
+import org.apache.spark.sql.types.StructType;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * The operations' reading of Spark's own row form (the fast path): tables as a cluster reads
+ * them from files (arrays whose elements may be null) give the same numbers as tables made in
+ * memory; bad elements are refused with the row's id and the field; a repeated id is refused in
+ * every table whose id names a spectrum, exposure or scene; and an operation stays lazy.
+ */
+class RowFormTest {
+
+    private static final List<String> SPECIES = List.of("H I", "He II");
+
+    /** The peak-list schema as Parquet gives it back: every array may hold null elements. */
+    private static final StructType NULLABLE_PEAK_LISTS = new StructType()
+            .add("id", DataTypes.StringType, true)
+            .add("positions", DataTypes.createArrayType(DataTypes.DoubleType, true), true)
+            .add("sigmas", DataTypes.createArrayType(DataTypes.DoubleType, true), true)
+            .add("intensities", DataTypes.createArrayType(DataTypes.DoubleType, true), true)
+            .add("widths", DataTypes.createArrayType(DataTypes.DoubleType, true), true);
+
+    private static SurveyIdentification job() {
+        return SurveyIdentification.of(IdentificationParameters.inWindow(SPECIES, List.of(), 360, 710)
+                .withVelocitySearch(100e3).withPlasmaEstimate(0.05));
+    }
+
+    @Test
+    void aTableReadFromParquetGivesTheSameRowsAsTheTableInMemory(@TempDir Path folder) {
+        SparkSession spark = LocalSpark.session();
+        List<Fixtures.PeakListData> lists = Fixtures.peakLists(SPECIES, 6, 12, 2, 31L);
+        Dataset<Row> memory = Fixtures.peakListTable(spark, lists, 2);
+        String file = folder.resolve("peaks.parquet").toString();
+        // An extra column and another column order: the operation reads only its own columns, by name.
+        memory.withColumn("exposure_s", org.apache.spark.sql.functions.lit(30.0))
+                .select("widths", "exposure_s", "positions", "id", "intensities", "sigmas").write().parquet(file);
+        Dataset<Row> read = spark.read().parquet(file);
+        assertTrue(read.schema().apply("positions").dataType().simpleString().equals("array<double>"));
+        List<Row> fromMemory = job().identify(memory).spectra().orderBy("id").collectAsList();
+        List<Row> fromFile = job().identify(read).spectra().orderBy("id").collectAsList();
+        assertEquals(lists.size(), fromFile.size());
+        // Row equality compares every value, doubles exactly, nested peaks and presence included.
+        assertEquals(fromMemory, fromFile);
+        assertTrue(fromFile.get(0).getInt(2) > 5, "peaks matched: " + fromFile.get(0));
+    }
+
+    @Test
+    void badElementsAreRefusedNamingTheRowAndField() {
+        SparkSession spark = LocalSpark.session();
+        SurveyIdentification job = job();
+        List<Row> nullElement = List.of(RowFactory.create("gap", List.of(486.1, 656.4).toArray(), new Double[] {1e-3,
+            null}, null, null));
+        String message = SurveyIdentificationTest.failure(() -> job.identify(
+                spark.createDataFrame(nullElement, NULLABLE_PEAK_LISTS)).spectra().count());
+        assertTrue(message.contains("row 'gap', field 'sigmas': element 1 is null"), message);
+
+        List<Row> negative = List.of(RowFactory.create("dark", new Double[] {486.1, 656.4}, new Double[] {1e-3, 1e-3},
+                new Double[] {5.0, -2.0}, null));
+        message = SurveyIdentificationTest.failure(() -> job.identify(
+                spark.createDataFrame(negative, NULLABLE_PEAK_LISTS)).spectra().count());
+        assertTrue(message.contains("row 'dark', field 'intensities': element 1 is -2.0; each must be finite and at"
+                + " least 0.0"), message);
+
+        List<Row> infinite = List.of(RowFactory.create("far", new Double[] {486.1, Double.POSITIVE_INFINITY},
+                new Double[] {1e-3, 1e-3}, null, null));
+        message = SurveyIdentificationTest.failure(() -> job.identify(
+                spark.createDataFrame(infinite, NULLABLE_PEAK_LISTS)).spectra().count());
+        assertTrue(message.contains("row 'far', field 'positions': element 1 is Infinity"), message);
+
+        List<Row> longer = List.of(RowFactory.create("long", new Double[] {486.1, 656.4}, new Double[] {1e-3, 1e-3},
+                null, new Double[] {0.1, 0.1, 0.1}));
+        message = SurveyIdentificationTest.failure(() -> job.identify(
+                spark.createDataFrame(longer, NULLABLE_PEAK_LISTS)).spectra().count());
+        assertTrue(message.contains("row 'long', field 'widths': has 3 elements, but positions has 2"), message);
+
+        List<Row> empty = List.of(RowFactory.create("none", new Double[0], null, null, null));
+        message = SurveyIdentificationTest.failure(() -> job.identify(
+                spark.createDataFrame(empty, NULLABLE_PEAK_LISTS)).spectra().count());
+        assertTrue(message.contains("row 'none', field 'positions': is empty"), message);
+
+        List<Row> noId = List.of(RowFactory.create(null, new Double[] {486.1}, new Double[] {1e-3}, null, null));
+        message = SurveyIdentificationTest.failure(() -> job.identify(
+                spark.createDataFrame(noId, NULLABLE_PEAK_LISTS)).spectra().count());
+        assertTrue(message.contains("row 'null', field 'id': the id is null"), message);
+    }
+
+    @Test
+    void aRepeatedIdIsRefusedInEveryTableWhoseIdNamesASpectrum() {
+        SparkSession spark = LocalSpark.session();
+        // Peak lists: the same spectrum twice (an ingest run twice) would give two identifications under one key.
+        List<Fixtures.PeakListData> lists = Fixtures.peakLists(SPECIES, 3, 6, 1, 32L);
+        List<Row> rows = new ArrayList<>();
+        for (Fixtures.PeakListData list : lists) {
+            rows.add(list.row());
+        }
+        rows.add(lists.get(1).row());
+        String message = SurveyIdentificationTest.failure(() -> job().identify(
+                spark.createDataFrame(rows, Schemas.PEAK_LISTS).repartition(2)).spectra().count());
+        assertTrue(message.contains("row 'spectrum-1', field 'id': the peak-list table has 2 rows with this id; each"
+                + " row needs its own id"), message);
+        // The same rows without the copy are fine.
+        assertEquals(3, job().identify(spark.createDataFrame(rows.subList(0, 3), Schemas.PEAK_LISTS)).spectra()
+                .count());
+
+        List<Row> scenes = new ArrayList<>();
+        for (int k = 0; k < 3; k++) {
+            scenes.add(RowFactory.create(k == 2 ? "scene-0" : "scene-" + k, new String[] {"H I"}, null, 8000.0, null,
+                    0.0, 5000.0, (long) k));
+        }
+        message = SurveyIdentificationTest.failure(() -> SurveySynthesis.of(SynthesisParameters.linear(640, 670, 100)
+                .withModel("qed", 8)).synthesise(spark.createDataFrame(scenes, Schemas.SCENES)).count());
+        assertTrue(message.contains("row 'scene-0', field 'id': the scene table has 2 rows with this id"), message);
+
+        List<Row> exposures = List.of(RowFactory.create("exp-1", new double[] {1, 2, 3}, null),
+                RowFactory.create("exp-1", new double[] {1, 2, 3}, null));
+        message = SurveyIdentificationTest.failure(() -> SurveyCalibration.of(CalibrationParameters.of(
+                List.of("Ne I"), List.of())).calibrate(spark.createDataFrame(exposures, Schemas.EXPOSURES)).count());
+        assertTrue(message.contains("row 'exp-1', field 'id': the exposure table has 2 rows with this id"), message);
+
+        // Applying calibrations: the join on calibration_id needs one calibration per id, and science ids are keys.
+        List<Row> calibrations = new ArrayList<>(List.of(calibration("cal-1", 500.0), calibration("cal-2", 600.0)));
+        List<Row> science = new ArrayList<>(List.of(RowFactory.create("star-1", "cal-1", new double[] {1, 2, 3, 4}),
+                RowFactory.create("star-2", "cal-2", new double[] {4, 3, 2, 1})));
+        List<Row> applied = SurveyCalibration.apply(spark.createDataFrame(science, Schemas.SCIENCE),
+                spark.createDataFrame(calibrations, Schemas.CALIBRATIONS)).orderBy("id").collectAsList();
+        assertEquals(2, applied.size());
+        assertEquals(499.0, applied.get(0).getList(3).get(0)); // pixel 0: x = -1
+        calibrations.add(calibration("cal-2", 601.0));
+        message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(spark.createDataFrame(science,
+                Schemas.SCIENCE), spark.createDataFrame(calibrations, Schemas.CALIBRATIONS)).count());
+        assertEquals("row 'star-2', field 'calibration_id': the calibrations table has 2 rows with the id 'cal-2';"
+                + " each calibration needs its own id", message);
+        science.add(RowFactory.create("star-1", "cal-1", new double[] {1, 1, 1, 1}));
+        message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(spark.createDataFrame(science,
+                Schemas.SCIENCE), spark.createDataFrame(calibrations.subList(0, 2), Schemas.CALIBRATIONS)).count());
+        assertEquals("row 'star-1', field 'id': the science table has 2 rows with this id; each row needs its own id"
+                + " (the outputs are keyed by it)", message);
+    }
+
+    /** A saved calibration of 4 pixels, wavelength = a0 + 1 nm x (pixel - 1.5) / 1.5, air. */
+    private static Row calibration(String id, double a0) {
+        return RowFactory.create(id, 4, "air", 1, 1.5, 1.5, new double[] {a0, 1.0}, null, 0.0, 3.0, 0.01, 0.1, 1.0,
+                5, 0, 6, 5, 5, 1.0, 1.0, 0, new String[] {"Ne I 585.249"}, "test", null, null);
+    }
+
+    @Test
+    void anOperationRunsNothingUntilAnAction() {
+        SparkSession spark = LocalSpark.session();
+        List<Fixtures.PeakListData> lists = Fixtures.peakLists(SPECIES, 4, 6, 1, 33L);
+        Dataset<Row> shuffled = Fixtures.peakListTable(spark, lists, 3); // a repartition: a shuffle to plan
+        spark.sparkContext().setJobGroup("ritzwerk-lazy", "identify without an action", false);
+        try {
+            Dataset<Row> spectra = job().identify(shuffled).spectra();
+            assertEquals(0, spark.sparkContext().statusTracker().getJobIdsForGroup("ritzwerk-lazy").length,
+                    "no Spark job before an action");
+            assertEquals(lists.size(), spectra.count());
+            assertTrue(spark.sparkContext().statusTracker().getJobIdsForGroup("ritzwerk-lazy").length > 0);
+        } finally {
+            spark.sparkContext().clearJobGroup();
+        }
+    }
+}
