@@ -153,9 +153,9 @@ final class PairPotentialCommand implements Callable<Integer> {
         table.finish();
         if (plot != null) {
             try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
-                PairPotentialChart.draw(batch, plot, atom.species().notation() + " " + pair.label() + ", "
+                EigenstateChart.draw(batch, plot, atom.species().notation() + " " + pair.label() + ", "
                         + OptionRules.show(angle) + " deg, " + result.basisSize() + " pair states",
-                        points.stream().mapToDouble(p -> p[0]).toArray(),
+                        EigenstateChart.PAIR, points.stream().mapToDouble(p -> p[0]).toArray(),
                         points.stream().mapToDouble(p -> p[1]).toArray(),
                         points.stream().mapToDouble(p -> p[2]).toArray());
                 batch.commit();

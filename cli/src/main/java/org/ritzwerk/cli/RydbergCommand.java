@@ -265,9 +265,9 @@ final class RydbergCommand implements Runnable {
             table.finish();
             if (plot != null) {
                 try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
-                    StarkChart.draw(batch, plot, atom.species().notation() + " " + state.label() + ", m_j = "
+                    EigenstateChart.draw(batch, plot, atom.species().notation() + " " + state.label() + ", m_j = "
                             + half(twoMj) + ", basis of " + map.size() + " states",
-                            points.stream().mapToDouble(p -> p[0]).toArray(),
+                            EigenstateChart.STARK, points.stream().mapToDouble(p -> p[0]).toArray(),
                             points.stream().mapToDouble(p -> p[1]).toArray(),
                             points.stream().mapToDouble(p -> p[2]).toArray());
                     batch.commit();

@@ -105,11 +105,7 @@ final class Fields implements Serializable {
         if (isNull(row, field)) {
             throw bad(id, field, "is null");
         }
-        double value = row.getDouble(index[field]);
-        if (!Double.isFinite(value)) {
-            throw bad(id, field, "is " + value + ", not a finite number");
-        }
-        return value;
+        return finite(id, field, row.getDouble(index[field]));
     }
 
     /** @return the double, or NaN when the column is absent or null; a present value checked finite */
@@ -156,24 +152,14 @@ final class Fields implements Serializable {
             return null;
         }
         List<Object> list = row.getList(index[field]);
-        if (length >= 0 && list.size() != length) {
-            throw bad(id, field, "has " + list.size() + " elements, but " + names[1] + " has " + length);
-        }
-        if (list.isEmpty()) {
-            throw bad(id, field, "is empty");
-        }
+        checkLength(id, field, list.size(), length);
         double[] values = new double[list.size()];
         for (int i = 0; i < values.length; i++) {
             Object element = list.get(i);
             if (element == null) {
                 throw bad(id, field, "element " + i + " is null");
             }
-            double value = (Double) element;
-            if (!Double.isFinite(value) || value < floor || above && value == floor) {
-                throw bad(id, field, "element " + i + " is " + value + "; each must be finite and "
-                        + (above ? "above " : "at least ") + floor);
-            }
-            values[i] = value;
+            values[i] = element(id, field, i, (Double) element, floor, above);
         }
         return values;
     }
@@ -203,6 +189,33 @@ final class Fields implements Serializable {
         return out;
     }
 
+    /** @return the value, checked finite */
+    private double finite(String id, int field, double value) {
+        if (!Double.isFinite(value)) {
+            throw bad(id, field, "is " + value + ", not a finite number");
+        }
+        return value;
+    }
+
+    /** @return element i, checked finite and at least (or, with above, above) the floor */
+    private double element(String id, int field, int i, double value, double floor, boolean above) {
+        if (!Double.isFinite(value) || value < floor || above && value == floor) {
+            throw bad(id, field, "element " + i + " is " + value + "; each must be finite and "
+                    + (above ? "above " : "at least ") + floor);
+        }
+        return value;
+    }
+
+    /** Refuses an empty array, or one whose length differs from the wanted one (-1: any). */
+    private void checkLength(String id, int field, int n, int length) {
+        if (length >= 0 && n != length) {
+            throw bad(id, field, "has " + n + " elements, but " + names[1] + " has " + length);
+        }
+        if (n == 0) {
+            throw bad(id, field, "is empty");
+        }
+    }
+
     // ---- Spark's own row form (the fast path) ----
 
     private boolean isNull(InternalRow row, int field) {
@@ -222,11 +235,7 @@ final class Fields implements Serializable {
         if (isNull(row, field)) {
             throw bad(id, field, "is null");
         }
-        double value = row.getDouble(index[field]);
-        if (!Double.isFinite(value)) {
-            throw bad(id, field, "is " + value + ", not a finite number");
-        }
-        return value;
+        return finite(id, field, row.getDouble(index[field]));
     }
 
     /** @return the double, or NaN when the column is absent or null; a present value checked finite */
@@ -273,22 +282,13 @@ final class Fields implements Serializable {
         }
         ArrayData list = row.getArray(index[field]);
         int n = list.numElements();
-        if (length >= 0 && n != length) {
-            throw bad(id, field, "has " + n + " elements, but " + names[1] + " has " + length);
-        }
-        if (n == 0) {
-            throw bad(id, field, "is empty");
-        }
+        checkLength(id, field, n, length);
         double[] values = list.toDoubleArray(); // a null element's slot holds no value; it is refused below
         for (int i = 0; i < n; i++) {
             if (list.isNullAt(i)) {
                 throw bad(id, field, "element " + i + " is null");
             }
-            double value = values[i];
-            if (!Double.isFinite(value) || value < floor || above && value == floor) {
-                throw bad(id, field, "element " + i + " is " + value + "; each must be finite and "
-                        + (above ? "above " : "at least ") + floor);
-            }
+            element(id, field, i, values[i], floor, above);
         }
         return values;
     }
