@@ -31,8 +31,8 @@ public final class DataLines {
      * @param tier    the level model of the one-electron ions
      * @return the sources: each ion with its context nucleus in that tier, each alkali atom as the
      *         context assembles it, each other species' level list ({@link DataContext#levelList})
-     *         giving its lines by the Ritz combination principle under the E1 rules, with the A
-     *         values of its companion line list ({@link #ritzLines})
+     *         giving its lines by the Ritz combination principle under the E1 and LS rules, with
+     *         the A values of its companion line list ({@link #ritzLines})
      * @throws IllegalArgumentException naming a species that is neither
      * @throws ReferenceDataException   when the context has no data for a species' isotope
      */
@@ -75,11 +75,14 @@ public final class DataLines {
     /**
      * @param context where the data comes from
      * @param species a species with a level list
-     * @return the Ritz job for its lines: E1 rules, and the A values of the companion line list
-     *         ({@link DataContext#transitionProbabilities}) where the context has one
+     * @return the Ritz job for its lines: E1 rules and, where both labels give a term, the LS rules
+     *         (as the {@code lines} and {@code identify} commands apply them; {@code
+     *         .withLsRules(false)} lets intercombination lines through), and the A values of the
+     *         companion line list ({@link DataContext#transitionProbabilities}) where the context has
+     *         one
      */
     public static RitzLines ritzLines(DataContext context, Species species) {
-        RitzLines job = RitzLines.defaults();
+        RitzLines job = RitzLines.defaults().withLsRules(true);
         Optional<LineList> companion = context.transitionProbabilities(species);
         return companion.isPresent() ? job.withEinsteinA(companion.get()) : job;
     }

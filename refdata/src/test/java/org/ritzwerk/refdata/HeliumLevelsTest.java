@@ -11,25 +11,25 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.QuantumDefects;
-import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
+import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
 import org.ritzwerk.engine.identify.IdentificationSearch;
 import org.ritzwerk.engine.identify.Identifier;
 import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.engine.lines.LineQuery;
+import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.lines.LineSources;
 import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.ritz.RitzLines;
-import org.ritzwerk.quantity.Unit;
-import org.ritzwerk.engine.lines.LineQuery;
-import org.ritzwerk.engine.lines.LineSet;
-import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.ritz.RydbergSeries;
 import org.ritzwerk.engine.ritz.SeriesFit;
 import org.ritzwerk.engine.ritz.SeriesFitter;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.quantity.Wavelength;
 
 /** The built-in He I levels (levels/levels-he-i.csv) and their Ritz lines. */
@@ -69,13 +69,21 @@ class HeliumLevelsTest {
             assertTrue(i != null, row[0] + " missing from " + byName.keySet());
             assertEquals((double) row[1], lines.wavelengthMetres(i, Medium.air()) * 1e9, 2e-4, (String) row[0]);
         }
-        // the E1 rules without LS rules keep intercombination lines (1s2 1S0 - 1s2p 3P1 lies in the VUV)
-        LineSet vuv = LineQuery.defaults()
-                .withWindow(Wavelength.ofNanometres(50, Medium.vacuum()), Wavelength.ofNanometres(70, Medium.vacuum()))
-                .run(DataLines.sources(context, List.of(HE), Tier.QED));
-        List<String> names = java.util.stream.IntStream.range(0, vuv.size()).mapToObj(vuv::name).toList();
-        assertTrue(names.contains("1s2 1S0 - 1s2p 3P1") && names.contains("1s2 1S0 - 1s2p 1P1"), names.toString());
-        assertTrue(!names.contains("1s2 1S0 - 1s2p 3P2") && !names.contains("1s2 1S0 - 1s2s 3S1"), names.toString());
+        // by default the LS rules hold where both labels give a term, as in the lines command:
+        // 1s2 1S0 - 1s2p 1P1 (VUV) is there, the intercombination line 1s2 1S0 - 1s2p 3P1 is not
+        LineQuery vuvWindow = LineQuery.defaults()
+                .withWindow(Wavelength.ofNanometres(50, Medium.vacuum()), Wavelength.ofNanometres(70, Medium.vacuum()));
+        List<String> withLs = names(vuvWindow.run(DataLines.sources(context, List.of(HE), Tier.QED)));
+        assertTrue(withLs.contains("1s2 1S0 - 1s2p 1P1") && !withLs.contains("1s2 1S0 - 1s2p 3P1"), withLs.toString());
+        // the E1 rules alone keep it, and still refuse Delta J = 2 and parity-keeping pairs
+        List<String> e1 = names(vuvWindow.run(LineSources.none().withLevels(DataLines.levels(context, HE),
+                DataLines.ritzLines(context, HE).withLsRules(false))));
+        assertTrue(e1.contains("1s2 1S0 - 1s2p 3P1") && e1.contains("1s2 1S0 - 1s2p 1P1"), e1.toString());
+        assertTrue(!e1.contains("1s2 1S0 - 1s2p 3P2") && !e1.contains("1s2 1S0 - 1s2s 3S1"), e1.toString());
+    }
+
+    private static List<String> names(LineSet lines) {
+        return java.util.stream.IntStream.range(0, lines.size()).mapToObj(lines::name).toList();
     }
 
     @Test
