@@ -219,11 +219,8 @@ final class LevelsCommand implements Callable<Integer> {
                         }
                     }
                     List<AlkaliHyperfine.FLevel> split = hyperfine
-                            ? data.context().alkaliHyperfine().fLevels(data.context(), atom.species(), state)
+                            ? data.context().hyperfineLevels(atom.species(), state)
                             : List.of();
-                    if (hyperfine && split.isEmpty()) {
-                        split = data.context().rydbergHyperfine().fLevels(data.context(), atom.species(), state);
-                    }
                     if (split.isEmpty()) {
                         table.add(java.util.Arrays.copyOf(row, columns));
                         continue;

@@ -4,7 +4,6 @@ import static org.ritzwerk.engine.hydrogenic.Notation.half;
 
 import java.io.PrintWriter;
 import java.util.List;
-import java.util.Optional;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hyperfine.HyperfineConstants;
@@ -16,8 +15,8 @@ import org.ritzwerk.refdata.DataContext;
 /**
  * {@code levels --hyperfine --state STATE}: the F levels of one alkali level (a Rydberg level with
  * n*^-3-scaled constants, or a ground or first p level with measured ones), each with its energy and
- * its shift from the hyperfine-free level. Formatting only: the F levels come from
- * {@link AlkaliHyperfine#fLevels} and {@link org.ritzwerk.refdata.RydbergHyperfine#fLevels}.
+ * its shift from the hyperfine-free level. Formatting only: the constants and F levels come from
+ * {@link DataContext#hyperfineConstants} and {@link DataContext#hyperfineLevels}.
  */
 final class RydbergHyperfineLevels {
 
@@ -59,24 +58,11 @@ final class RydbergHyperfineLevels {
             } catch (RydbergException e) {
                 throw new OptionException(STATE_OPTION + ": " + e.getMessage());
             }
-            Optional<AlkaliHyperfine.LevelConstants> measured = context.alkaliHyperfine().constants(atom.species(),
-                    state);
-            HyperfineConstants constants;
-            List<AlkaliHyperfine.FLevel> levels;
-            if (measured.isPresent()) {
-                constants = measured.get().constants();
-                levels = context.alkaliHyperfine().fLevels(context, atom.species(), state);
-            } else {
-                Optional<HyperfineConstants> scaled = context.rydbergHyperfine().constants(context, atom.species(),
-                        state);
-                if (scaled.isEmpty()) {
-                    throw new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
+            HyperfineConstants constants = context.hyperfineConstants(atom.species(), state).orElseThrow(
+                    () -> new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
                             + atom.species().notation() + " (constants are built in for the ground and first p levels "
-                            + "and, scaled as n*^-3, for the Rydberg series of rydberg-hyperfine.csv)");
-                }
-                constants = scaled.get();
-                levels = context.rydbergHyperfine().fLevels(context, atom.species(), state);
-            }
+                            + "and, scaled as n*^-3, for the Rydberg series of rydberg-hyperfine.csv)"));
+            List<AlkaliHyperfine.FLevel> levels = context.hyperfineLevels(atom.species(), state);
             for (AlkaliHyperfine.FLevel f : levels) {
                 table.add(atom.species().notation(), state.notation(), half(f.twoF()), f.twoF() + 1, f.energyPerCm(),
                         (f.energyPerCm() - centroid) * 100 * PhysicalConstants.C / 1e6, constants.aHertz() / 1e6,

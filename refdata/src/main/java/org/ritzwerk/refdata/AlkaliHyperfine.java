@@ -333,13 +333,21 @@ public final class AlkaliHyperfine {
     public List<FLevel> fLevels(DataContext context, Species species, State state) {
         Objects.requireNonNull(context, "context");
         Optional<LevelConstants> own = constants(species, state);
-        if (own.isEmpty()) {
-            return List.of();
-        }
+        return own.isEmpty() ? List.of() : fLevels(context, species, state, own.get().constants());
+    }
+
+    /**
+     * The F levels of a level from given constants (Casimir formula), on the context's
+     * hyperfine-free level; shared by the measured and the n*^-3-scaled constants.
+     *
+     * @return the F levels by rising F, energies above the ground level's hyperfine-free centroid
+     *         in cm^-1
+     */
+    static List<FLevel> fLevels(DataContext context, Species species, State state, HyperfineConstants constants) {
         int twoI = context.nucleus(species).twiceSpin();
         double centroid = context.alkaliAtom(species).level(state).energyPerCm();
         List<FLevel> out = new ArrayList<>();
-        for (HyperfineLevel f : HyperfineStructure.levels(twoI, state.twoJ(), own.get().constants())) {
+        for (HyperfineLevel f : HyperfineStructure.levels(twoI, state.twoJ(), constants)) {
             out.add(new FLevel(f.twoF(), centroid + f.shiftHertz() / (PhysicalConstants.C * 100)));
         }
         return List.copyOf(out);

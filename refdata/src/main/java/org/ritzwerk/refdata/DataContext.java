@@ -16,6 +16,7 @@ import java.util.concurrent.ConcurrentMap;
 import java.util.stream.Collectors;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.Isotope;
@@ -25,6 +26,7 @@ import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.MeasuredLevel;
 import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
+import org.ritzwerk.engine.hyperfine.HyperfineConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.internal.RydbergData;
@@ -313,6 +315,30 @@ public final class DataContext {
      */
     public RydbergHyperfine rydbergHyperfine() {
         return RydbergHyperfine.builtIn();
+    }
+
+    /**
+     * @param species a neutral alkali isotope
+     * @param state   a level, e.g. 5p 2P3/2 or 60s 2S1/2
+     * @return the hyperfine constants that apply to it: the measured ones where
+     *         {@link #alkaliHyperfine()} has them (ground and first p levels), else the n*^-3-scaled
+     *         ones of {@link #rydbergHyperfine()}; empty when neither has the level
+     */
+    public Optional<HyperfineConstants> hyperfineConstants(Species species, State state) {
+        Optional<AlkaliHyperfine.LevelConstants> measured = alkaliHyperfine().constants(species, state);
+        return measured.isPresent() ? Optional.of(measured.get().constants())
+                : rydbergHyperfine().constants(this, species, state);
+    }
+
+    /**
+     * @param species a neutral alkali isotope
+     * @param state   a level
+     * @return its F levels from {@link #hyperfineConstants} (Casimir formula), by rising F, energies
+     *         above the ground level's hyperfine-free centroid in cm^-1; empty when it has no constants
+     */
+    public List<AlkaliHyperfine.FLevel> hyperfineLevels(Species species, State state) {
+        Optional<HyperfineConstants> constants = hyperfineConstants(species, state);
+        return constants.isEmpty() ? List.of() : AlkaliHyperfine.fLevels(this, species, state, constants.get());
     }
 
     /**

@@ -10,11 +10,8 @@ import java.util.Objects;
 import java.util.Optional;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
-import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.hyperfine.HyperfineConstants;
-import org.ritzwerk.engine.hyperfine.HyperfineLevel;
-import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.refdata.internal.BuiltInCsv;
 
@@ -217,15 +214,6 @@ public final class RydbergHyperfine {
      */
     public List<AlkaliHyperfine.FLevel> fLevels(DataContext context, Species species, State state) {
         Optional<HyperfineConstants> c = constants(context, species, state);
-        if (c.isEmpty()) {
-            return List.of();
-        }
-        int twoI = context.nucleus(species).twiceSpin();
-        double centroid = context.alkaliAtom(species).level(state).energyPerCm();
-        List<AlkaliHyperfine.FLevel> out = new ArrayList<>();
-        for (HyperfineLevel f : HyperfineStructure.levels(twoI, state.twoJ(), c.get())) {
-            out.add(new AlkaliHyperfine.FLevel(f.twoF(), centroid + f.shiftHertz() / (PhysicalConstants.C * 100)));
-        }
-        return List.copyOf(out);
+        return c.isEmpty() ? List.of() : AlkaliHyperfine.fLevels(context, species, state, c.get());
     }
 }
