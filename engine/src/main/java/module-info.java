@@ -17,6 +17,7 @@ module org.ritzwerk.engine {
     exports org.ritzwerk.engine.hydrogenic;
     exports org.ritzwerk.engine.hyperfine;
     exports org.ritzwerk.engine.identify;
+    exports org.ritzwerk.engine.levels;
     exports org.ritzwerk.engine.lines;
     exports org.ritzwerk.engine.plasma;
     exports org.ritzwerk.engine.profile;

@@ -41,6 +41,7 @@ class ModuleExportsTest {
                     "org.ritzwerk.engine.hydrogenic",
                     "org.ritzwerk.engine.hyperfine",
                     "org.ritzwerk.engine.identify",
+                    "org.ritzwerk.engine.levels",
                     "org.ritzwerk.engine.lines",
                     "org.ritzwerk.engine.plasma",
                     "org.ritzwerk.engine.profile",

@@ -3,9 +3,7 @@ package org.ritzwerk.cli;
 import java.util.ArrayList;
 import java.util.List;
 import org.ritzwerk.atom.Species;
-import org.ritzwerk.engine.hydrogenic.Notation;
 import org.ritzwerk.engine.lines.LineSources;
-import org.ritzwerk.engine.ritz.LevelDesignation;
 import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.refdata.DataContext;
 import org.ritzwerk.refdata.DataLines;
@@ -47,10 +45,7 @@ final class LevelSets {
                 boolean modelled = s.isHydrogenLike()
                         || s.charge() == 0 && data.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z());
                 if (!modelled && data.levelList(s).isPresent()) {
-                    var list = data.levelList(s).get();
-                    Species own = list.info().species().stream().filter(c -> c.z() == s.z() && c.charge() == s.charge())
-                            .findFirst().orElse(s);
-                    levels.add(RitzLevels.of(list, own).withSpecies(s));
+                    levels.add(DataLines.levels(data, s));
                 } else {
                     others.add(text);
                 }
@@ -72,25 +67,5 @@ final class LevelSets {
             sources = sources.withLevels(set, DataLines.ritzLines(data, set.species()).withLsRules(lsRules));
         }
         return sources;
-    }
-
-    /**
-     * Adds the levels' rows to a {@code levels} table (species, level, n, l, j, F, g, energy, model, ...).
-     *
-     * @param table   the table
-     * @param levels  the level lists
-     * @param columns the table's number of columns
-     */
-    static void addRows(Table table, List<RitzLevels> levels, int columns) {
-        for (RitzLevels set : levels) {
-            String model = "level list" + set.info().map(i -> " " + i.id()).orElse("");
-            for (int i = 0; i < set.size(); i++) {
-                LevelDesignation d = set.designation(i);
-                Object[] row = {set.species().notation(), set.label(i), null, null,
-                    d.hasJ() ? Notation.half(d.twoJ()) : null, null, d.hasJ() ? d.twoJ() + 1 : null,
-                    set.energyPerCm(i), model, null, null};
-                table.add(java.util.Arrays.copyOf(row, columns));
-            }
-        }
     }
 }

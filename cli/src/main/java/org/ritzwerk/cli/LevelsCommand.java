@@ -1,17 +1,22 @@
 package org.ritzwerk.cli;
 
 import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.OptionalDouble;
+import java.util.OptionalInt;
 import java.util.concurrent.Callable;
-import org.ritzwerk.atom.State;
-import org.ritzwerk.constants.PhysicalConstants;
-import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
-import org.ritzwerk.engine.hydrogenic.LevelTable;
+import java.util.function.DoubleConsumer;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.Notation;
+import org.ritzwerk.engine.levels.LevelQuery;
+import org.ritzwerk.engine.levels.LevelSet;
+import org.ritzwerk.engine.levels.LevelSources;
+import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.engine.rydberg.Level;
-import org.ritzwerk.engine.rydberg.RydbergException;
-import org.ritzwerk.refdata.AlkaliHyperfine;
+import org.ritzwerk.refdata.DataLevels;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -108,7 +113,6 @@ final class LevelsCommand implements Callable<Integer> {
         if (lMax < 0 || lMax > 50) {
             throw new OptionException("--l-max must be 0 to 50, got " + lMax);
         }
-        double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
         LevelSets.Split levelSets = LevelSets.split(data.context(), ions.species);
         Ions.Atoms atoms = levelSets.levels().isEmpty() ? ions.resolveAtoms(data.context())
                 : Ions.atoms(data.context(), levelSets.others(), ions.model);
@@ -149,99 +153,50 @@ final class LevelsCommand implements Callable<Integer> {
                 spec.commandLine().getErr().flush();
             });
         }
-        Table table = new Table(columns, spec.commandLine().getOut(), format);
+        LevelSources sources = LevelSources.none();
         for (Ions.Ion ion : atoms.ions()) {
-            // One shell at a time, so that memory does not grow with --n-max (about 4 million
-            // levels at n = 2000); the ground level lies in shell 1.
-            LevelTable shell = ion.model().levels(1, 1);
-            double ground = Double.POSITIVE_INFINITY;
-            for (int i = 0; i < shell.size(); i++) {
-                ground = Math.min(ground, shell.energy(i));
-            }
-            HydrogenLikeLines lines = HydrogenLikeLines.of(ion.model());
-            String species = ion.species().notation();
-            String model = ion.model().tier().id();
-            Progress progress = Progress.on(spec.commandLine().getErr(), "levels: " + ion.species().notation()
-                    + (lifetimes ? " lifetimes" : ""));
-            for (int n = 1; n <= nMax; n++) {
-                LevelTable levels = n == 1 ? shell : ion.model().levels(n, n);
-                for (int i = 0; i < levels.size(); i++) {
-                    Object[] row = {species, levels.label(i), levels.n(i), levels.l(i),
-                        Notation.half(levels.twoJ(i)), levels.twoF(i) < 0 ? null : Notation.half(levels.twoF(i)),
-                        levels.statisticalWeight(i), (levels.energy(i) - ground) / hcPerCm, model, null, null};
-                    if (lifetimes) {
-                        row[9] = lines.lifetime(levels.n(i), levels.l(i), levels.twoJ(i));
-                    }
-                    table.add(java.util.Arrays.copyOf(row, columns.size()));
-                }
-                progress.accept(lifetimes ? Math.pow((double) n / nMax, 4) : (double) n * n / ((double) nMax * nMax));
-            }
+            sources = sources.withHydrogenLike(ion.species(), ion.model());
         }
         for (AlkaliAtom atom : atoms.alkalis()) {
-            addAlkali(table, atom, columns.size());
+            sources = sources.withAlkali(atom, DataLevels.hyperfine(data.context(), atom.species()));
         }
-        LevelSets.addRows(table, levelSets.levels(), columns.size());
+        for (RitzLevels set : levelSets.levels()) {
+            sources = sources.withLevels(set);
+        }
+        LevelQuery query = LevelQuery.defaults().withMaxN(nMax).withMaxL(lMax).withLifetimes(lifetimes)
+                .withHyperfine(hyperfine);
+        if (temperature != null) {
+            query = query.withBlackBodyTemperature(temperature);
+        }
+        Table table = new Table(columns, spec.commandLine().getOut(), format);
+        Map<Species, DoubleConsumer> progress = new HashMap<>();
+        query.run(sources, (species, fraction) -> progress.computeIfAbsent(species, s -> Progress.on(
+                spec.commandLine().getErr(), "levels: " + s.notation() + (lifetimes ? " lifetimes" : "")))
+                .accept(fraction), part -> {
+                    for (int i = 0; i < part.size(); i++) {
+                        Object[] row = {part.species(i).notation(), part.label(i), boxed(part.n(i)), boxed(part.l(i)),
+                            part.twoJ(i).isPresent() ? Notation.half(part.twoJ(i).getAsInt()) : null,
+                            part.twoF(i).isPresent() ? Notation.half(part.twoF(i).getAsInt()) : null,
+                            boxed(part.statisticalWeight(i)), part.energyPerCm(i), part.model(i),
+                            boxed(part.lifetimeSeconds(i)), boxed(part.effectiveLifetimeSeconds(i))};
+                        table.add(Arrays.copyOf(row, columns.size()));
+                    }
+                    for (LevelSet.Omission omitted : part.omissions()) {
+                        spec.commandLine().getErr().println("note: " + omitted.species().notation() + ": "
+                                + omitted.count() + " level(s) with " + omitted.reason() + " are not listed (first: "
+                                + omitted.first() + "); they are not extrapolated");
+                        spec.commandLine().getErr().flush();
+                    }
+                });
         table.finish();
         return 0;
     }
 
-    /** The alkali atom's levels, n up to --n-max and l up to --l-max, lowest first. */
-    private void addAlkali(Table table, AlkaliAtom atom, int columns) {
-        int skipped = 0;
-        String firstSkipped = null;
-        Progress progress = Progress.on(spec.commandLine().getErr(), "levels: " + atom.species().notation()
-                + (lifetimes ? " lifetimes" : ""));
-        for (int n = 1; n <= nMax; n++) {
-            for (int l = 0; l <= Math.min(lMax, n - 1); l++) {
-                for (int twoJ = 2 * l - 1; twoJ <= 2 * l + 1; twoJ += 2) {
-                    if (twoJ < 1) {
-                        continue;
-                    }
-                    State state = State.of(n, l, twoJ);
-                    if (n < atom.lowestN(l)) {
-                        continue; // filled by the core: no such level
-                    }
-                    Level level;
-                    try {
-                        level = atom.level(state);
-                    } catch (RydbergException e) {
-                        skipped++;
-                        firstSkipped = firstSkipped == null ? state.notation() : firstSkipped;
-                        continue;
-                    }
-                    Object[] row = {atom.species().notation(), state.notation(), n, l, Notation.half(twoJ), null,
-                        twoJ + 1, level.energyPerCm(), level.origin().name().toLowerCase(java.util.Locale.ROOT)
-                        .replace('_', '-'), null, null};
-                    if (lifetimes) {
-                        row[9] = state.equals(atom.groundState()) ? null : atom.radiativeLifetime(state);
-                        if (temperature != null && row[9] != null) {
-                            row[10] = atom.effectiveLifetime(state, temperature);
-                        }
-                    }
-                    List<AlkaliHyperfine.FLevel> split = hyperfine
-                            ? data.context().hyperfineLevels(atom.species(), state)
-                            : List.of();
-                    if (split.isEmpty()) {
-                        table.add(java.util.Arrays.copyOf(row, columns));
-                        continue;
-                    }
-                    for (AlkaliHyperfine.FLevel f : split) {
-                        Object[] fRow = row.clone();
-                        fRow[5] = Notation.half(f.twoF());
-                        fRow[6] = f.twoF() + 1;
-                        fRow[7] = f.energyPerCm();
-                        fRow[8] = row[8] + ", hyperfine A, B";
-                        table.add(java.util.Arrays.copyOf(fRow, columns));
-                    }
-                }
-            }
-            progress.accept((double) n / nMax);
-        }
-        if (skipped > 0) {
-            spec.commandLine().getErr().println("note: " + atom.species().notation() + ": " + skipped + " level(s) with"
-                    + " no measured energy below their quantum-defect series' validity are not listed (first: "
-                    + firstSkipped + "); they are not extrapolated");
-            spec.commandLine().getErr().flush();
-        }
+    private static Integer boxed(OptionalInt value) {
+        return value.isPresent() ? value.getAsInt() : null;
+    }
+
+    private static Double boxed(OptionalDouble value) {
+        return value.isPresent() ? value.getAsDouble() : null;
     }
 }
