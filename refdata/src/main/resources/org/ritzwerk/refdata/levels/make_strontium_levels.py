@@ -192,8 +192,8 @@ def main():
         f.write("# ritzwerk-levels 1\n")
         f.write("# id: levels-sr-i\n")
         used = [q for q in params if q["use"] == "yes"]
-        f.write("# title: Sr-88 I Rydberg levels n <= %d (%s) from published Rydberg-Ritz parameters, with 5s5p "
-                "3P1 and 1P1\n" % (N_TO, ", ".join("%s from n = %d" % (q["series"], q["start"]) for q in used)))
+        f.write("# title: Sr-88 I Rydberg levels n <= %d of five series from published Rydberg-Ritz parameters, "
+                "with 5s5p 3P1 and 1P1\n" % N_TO)
         f.write("# source: computed from rydberg-ritz-sr-88.csv: Rydberg-Ritz parameters of L. Couturier et al., "
                 "Phys. Rev. A 99, 022503 (2019) (5sns 3S1, 5snd 3D1) and C. L. Vaillant, M. P. A. Jones and R. M. Potvliege, "
                 "J. Phys. B 45, 135004 (2012) (5sns 1S0, 5snp 1P1, 5snd 1D2), from memory; the limit 1377012721(10) MHz of Couturier "
@@ -204,8 +204,9 @@ def main():
         f.write("# energy-unit: cm-1\n")
         f.write("# note: energies above the ground level 5s2 1S0; uncertainty (standard, rounded up to two digits) from the limit's 10 MHz "
                 "and the stated defect uncertainties (taken as independent), plus 0.003 cm-1 for the singlet "
-                "series; above n = 50 the triplet formulas are extrapolated beyond the measured range; checks in "
-                "strontium-checks.txt\n")
+                "series; series and first n: %s; above n = 50 the triplet formulas are extrapolated beyond the "
+                "measured range; checks in strontium-checks.txt\n"
+                % ", ".join("%s from n = %d" % (q["series"], q["start"]) for q in used))
         f.write("species,label,energy,uncertainty,j,note\n")
         for r in rows:
             f.write(",".join(r) + "\n")
