@@ -94,6 +94,48 @@ class HeliumRatesTest {
     }
 
     @Test
+    void theIntercombinationLineToTheGroundLevelHasItsPublishedRate() {
+        // 1s2 1S0 - 1s2p 3P1 (59.14 nm): A = 177.58 s^-1 (G. Lach and K. Pachucki, Phys. Rev. A 64, 042510
+        // (2001), from memory, as the row's note says); the measurement of R. G. Dall et al., Phys. Rev.
+        // Lett. 100, 023001 (2008), 177(8) s^-1 (from memory), is the independent value it must meet
+        DataContext context = DataContext.builtIn();
+        LineQuery window = LineQuery.defaults()
+                .withWindow(Wavelength.ofNanometres(59, Medium.vacuum()), Wavelength.ofNanometres(59.3, Medium.vacuum()));
+        // under the LS rules (the default) the line is not there at all
+        LineSet withLs = window.run(DataLines.sources(context, List.of(HE), Tier.QED));
+        for (int i = 0; i < withLs.size(); i++) {
+            assertTrue(!withLs.name(i).equals("1s2 1S0 - 1s2p 3P1"), "LS rules keep the intercombination line out");
+        }
+        // with the E1 rules alone it is, with its A; the other intercombination lines keep none
+        RitzLines e1 = DataLines.ritzLines(context, HE).withLsRules(false);
+        LineSet all = LineQuery.defaults()
+                .withWindow(Wavelength.ofNanometres(50, Medium.vacuum()), Wavelength.ofNanometres(3000, Medium.vacuum()))
+                .run(org.ritzwerk.engine.lines.LineSources.none().withLevels(DataLines.levels(context, HE), e1));
+        boolean found = false;
+        int intercombination = 0;
+        for (int i = 0; i < all.size(); i++) {
+            String name = all.name(i);
+            if (name.equals("1s2 1S0 - 1s2p 3P1")) {
+                found = true;
+                assertEquals(177.0, all.einsteinA(i).orElseThrow(), 2 * 8.0, "within 2 sigma of the measurement");
+                assertEquals(177.58, all.einsteinA(i).orElseThrow(), 0.01);
+                assertEquals(59.1412, all.vacuumWavelengthNm(i), 1e-4);
+            } else if (isIntercombination(name)) {
+                intercombination++;
+                assertTrue(all.einsteinA(i).isEmpty(), name + " has no published A here");
+            }
+        }
+        assertTrue(found, "1s2 1S0 - 1s2p 3P1 under the E1 rules");
+        assertTrue(intercombination > 10, "other intercombination lines: " + intercombination);
+    }
+
+    private static boolean isIntercombination(String name) {
+        String[] sides = name.split(" - ");
+        return sides.length == 2 && sides[0].charAt(sides[0].lastIndexOf(' ') + 1)
+                != sides[1].charAt(sides[1].lastIndexOf(' ') + 1);
+    }
+
+    @Test
     void heliumLinesAreSynthesisedWithBoltzmannPopulations() {
         DataContext context = DataContext.builtIn();
         RitzLevels levels = DataLines.levels(context, HE);

@@ -19,8 +19,12 @@ import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * Built-in level lists of species beyond one-electron ions and alkali atoms, whose lines come by
- * the Ritz combination principle: He I ({@code levels-he-i}, n up to 4, singlets and triplets). Each
- * row is from memory with its independent check named in its note (see {@code levels/README.md}).
+ * the Ritz combination principle: He I ({@code levels-he-i}, n up to 4, singlets and triplets) and
+ * Sr-88 I ({@code levels-sr-i}: five Rydberg series n = 20 to 60 computed by
+ * {@code make_strontium_levels.py} from the published Rydberg-Ritz parameters in
+ * {@code rydberg-ritz-sr-88.csv} and the published Sr-88 limit, with 5s5p 3P1 and 1P1). Each row is
+ * from memory or computed from values from memory, with its independent check named in its note or
+ * in the checks file beside it (see {@code levels/README.md}).
  * Beside each level list, its companion line list of transition probabilities
  * ({@code lines-he-i}: A between the same level labels, by the Coulomb approximation from the level
  * energies, the lines to the ground level from memory; see {@code levels/README.md}), which
@@ -28,7 +32,7 @@ import org.ritzwerk.refdata.ReferenceDataException;
  */
 public final class LevelProvider implements ReferenceDataProvider {
 
-    private static final List<String> FILES = List.of("levels-he-i", "lines-he-i");
+    private static final List<String> FILES = List.of("levels-he-i", "lines-he-i", "levels-sr-i");
 
     /** The sets, read from the jar on first use (listing needs their headers anyway). */
     private volatile Map<String, DataSet> sets;

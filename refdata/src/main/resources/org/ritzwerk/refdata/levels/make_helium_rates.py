@@ -85,6 +85,17 @@ GROUND = {
     "1s4p 1P1": (2.4356e8, 0.02986),
 }
 
+# Intercombination lines (E1 through singlet-triplet mixing), from memory: (lower, upper) -> (A s^-1, note).
+# 1s2 1S0 - 1s2p 3P1 (59.1 nm): the QED calculation of G. Lach and K. Pachucki, Phys. Rev. A 64, 042510
+# (2001), 177.58 s^-1; the measurement of R. G. Dall, K. G. H. Baldwin, L. J. Byron and A. G. Truscott,
+# Phys. Rev. Lett. 100, 023001 (2008), 177(8) s^-1 (also from memory) agrees. Independent relation
+# (check 3 below): the singlet admixture it implies, c^2 = A / (A(1s2p 1P1 - 1s2) (sigma_3P1 /
+# sigma_1P1)^3), times the singlet-triplet spacing gives a mixing matrix element of the size of the
+# 2 3P fine structure (both come from the same spin-dependent interactions; order of magnitude only).
+INTERCOMBINATION = {
+    ("1s2 1S0", "1s2p 3P1"): (1.7758e2, 177.0, 8.0),
+}
+
 
 def read_levels():
     levels = []
@@ -172,6 +183,13 @@ def main():
             sigma = up["energy"] - lo["energy"]
             if sigma <= 0 or abs(up["L"] - lo["L"]) != 1 or abs(up["j"] - lo["j"]) > 1 or up["j"] + lo["j"] == 0:
                 continue
+            if (lo["label"], up["label"]) in INTERCOMBINATION:
+                a, measured, measured_u = INTERCOMBINATION[(lo["label"], up["label"])]
+                assert abs(a - measured) <= 2 * measured_u, (lo["label"], up["label"])
+                rows.append((sigma, lo["label"], up["label"], a, "from memory (Lach and Pachucki 2001; QED "
+                             "calculation); the measured %.0f(%.0f) s^-1 of Dall et al. 2008 (from memory) agrees; "
+                             "check 3" % (measured, measured_u)))
+                continue
             if lo["config"] == "1s2":
                 if up["label"] in GROUND:
                     a, f = GROUND[up["label"]]
@@ -223,16 +241,30 @@ def main():
     steps = [scaled[i] - scaled[i + 1] for i in range(len(scaled) - 1)]
     assert all(s > 0 for s in steps) and all(steps[i + 1] < steps[i] for i in range(len(steps) - 1)), scaled
     out.append("ground: n*^3 f falls by %s: regular" % ", ".join("%.4f" % s for s in steps))
+    for (lo_label, up_label), (a, measured, measured_u) in INTERCOMBINATION.items():
+        lv = {x["label"]: x for x in levels}
+        singlet = up_label[:-3] + "1P1"
+        sigma_t = lv[up_label]["energy"] - lv[lo_label]["energy"]
+        sigma_s = lv[singlet]["energy"] - lv[lo_label]["energy"]
+        c2 = a / (GROUND[singlet][0] * (sigma_t / sigma_s) ** 3)
+        element = math.sqrt(c2) * (sigma_s - sigma_t)
+        triplet = [x["energy"] for x in levels if x["label"][:-1] == up_label[:-1]]
+        fine = max(triplet) - min(triplet)
+        ok = fine / 3 <= element <= 3 * fine
+        out.append("check 3: %s - %s A = %.4e s^-1 (measured %.0f(%.0f)): singlet admixture c^2 = %.3e, mixing "
+                   "element %.3f cm-1 against the 3P fine structure %.3f cm-1 (within a factor 3: %s)"
+                   % (lo_label, up_label, a, measured, measured_u, c2, element, fine, "ok" if ok else "FAIL"))
+        assert ok
     rows.sort()
     header = [
         "# ritzwerk-lines 1",
         "# id: lines-he-i",
         "# title: He I transition probabilities between the levels of levels-he-i (n <= 4)",
-        "# source: computed by the Coulomb approximation of D. R. Bates and A. Damgaard, Phil. Trans. R. Soc. Lond. A 242, 101 (1949), from the level energies of levels-he-i; the three lines to the ground level from memory, values of W. L. Wiese and J. R. Fuhr, J. Phys. Chem. Ref. Data 38, 565 (2009)",
+        "# source: computed by the Coulomb approximation of D. R. Bates and A. Damgaard, Phil. Trans. R. Soc. Lond. A 242, 101 (1949), from the level energies of levels-he-i; the three lines to the ground level from memory, values of W. L. Wiese and J. R. Fuhr, J. Phys. Chem. Ref. Data 38, 565 (2009); the intercombination line 1s2 1S0 - 1s2p 3P1 from memory, value of G. Lach and K. Pachucki, Phys. Rev. A 64, 042510 (2001)",
         "# provenance: computed",
         "# version: make_helium_rates.py with Debian python3-scipy %s and python3-mpmath %s" % (scipy.__version__, mpmath.__version__),
         "# position-unit: cm-1",
-        "# note: position is the Ritz wavenumber of the two levels (vacuum); einstein_a in s^-1 for the upper level named; lines between a singlet and a triplet level get no A (the method leaves out singlet-triplet mixing); the computed values agree with 14 strong-line A values of Wiese and Fuhr (2009), recalled from memory, within %.0f %% (helium-rates-checks.txt); each row's note names its source" % (100 * worst + 0.5),
+        "# note: position is the Ritz wavenumber of the two levels (vacuum); einstein_a in s^-1 for the upper level named; lines between a singlet and a triplet level get no A (the method leaves out singlet-triplet mixing) except 1s2 1S0 - 1s2p 3P1 (a published value); the computed values agree with 14 strong-line A values of Wiese and Fuhr (2009), recalled from memory, within %.0f %% (helium-rates-checks.txt); each row's note names its source" % (100 * worst + 0.5),
         "species,position,einstein_a,lower,upper,note",
     ]
     assert not any("," in note for *_, note in rows)
