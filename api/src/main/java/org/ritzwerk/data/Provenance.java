@@ -87,7 +87,8 @@ public record Provenance(Kind kind, String detail) {
     public String render() {
         switch (kind) {
             case COMPUTED:
-                return "computed by " + detail;
+                // a detail that already says "computed by ..." is not prefixed twice
+                return detail.startsWith("computed by ") ? detail : "computed by " + detail;
             case FROM_MEMORY:
                 return "from memory: " + detail;
             default:
