@@ -48,10 +48,10 @@ public final class RydbergHyperfine {
      *                    (a, b are the published constants times n*^3)
      * @param referenceN  n of the measured level for {@code level}, 0 for {@code scaled}
      * @param aText       a as printed
-     * @param bText       b as printed, empty for j = 1/2
+     * @param bText       b as printed; empty for j = 1/2, and for j > 1/2 when the source gives none
      * @param unit        {@code MHz} or {@code GHz}
      * @param aHertz      a in Hz
-     * @param bHertz      b in Hz (0 for j = 1/2)
+     * @param bHertz      b in Hz (0 when bText is empty: no quadrupole term is applied)
      * @param fromN       the lowest n the scaling serves
      * @param provenance  published (read in the source) or from-memory
      * @param source      the measurement
@@ -138,8 +138,11 @@ public final class RydbergHyperfine {
                 double a = new BigDecimal(f[5]).doubleValue() * toHertz;
                 new BigDecimal(f[6]);
                 boolean hasB = !f[7].isEmpty();
-                if (hasB != (twoJ > 1)) {
-                    throw new IllegalArgumentException("b is given exactly for j > 1/2");
+                if (hasB && twoJ == 1) {
+                    throw new IllegalArgumentException("b is given only for j > 1/2 (empty for j = 1/2)");
+                }
+                if (hasB == f[8].isEmpty()) {
+                    throw new IllegalArgumentException("b and b-uncertainty are both given or both empty");
                 }
                 double b = hasB ? new BigDecimal(f[7]).doubleValue() * toHertz : 0;
                 if (hasB) {
