@@ -22,7 +22,10 @@ import org.ritzwerk.refdata.internal.BuiltInCsv;
  * (likewise B), with {@code n* = sqrt(R_M / (E_limit - E))} of the isotope's own levels and limit
  * (the n^-3 scaling of the valence electron's density at the nucleus; common practice). The
  * measured constants of the ground and first p levels are {@link AlkaliHyperfine}'s; this class
- * serves the levels of a series from its {@code from-n} on. The built-in file is
+ * serves the levels of a series from its {@code from-n} on. An isotope without a row of its own for
+ * a series borrows another isotope's row of the same element, A times the ratio of the two isotopes'
+ * measured ground-level A constants and B times that of their first p3/2 B constants (common
+ * practice; hyperfine anomalies of a few 0.1 % neglected). The built-in file is
  * {@code rydberg/rydberg-hyperfine.csv} (format {@value #FORMAT} 1), each row with its source and
  * how it was checked. Immutable and thread-safe.
  */
@@ -48,10 +51,10 @@ public final class RydbergHyperfine {
      *                    (a, b are the published constants times n*^3)
      * @param referenceN  n of the measured level for {@code level}, 0 for {@code scaled}
      * @param aText       a as printed
-     * @param bText       b as printed, empty for j = 1/2
+     * @param bText       b as printed; empty for j = 1/2, and for j > 1/2 when the source gives none
      * @param unit        {@code MHz} or {@code GHz}
      * @param aHertz      a in Hz
-     * @param bHertz      b in Hz (0 for j = 1/2)
+     * @param bHertz      b in Hz (0 when bText is empty: no quadrupole term is applied)
      * @param fromN       the lowest n the scaling serves
      * @param provenance  published (read in the source) or from-memory
      * @param source      the measurement
@@ -138,8 +141,11 @@ public final class RydbergHyperfine {
                 double a = new BigDecimal(f[5]).doubleValue() * toHertz;
                 new BigDecimal(f[6]);
                 boolean hasB = !f[7].isEmpty();
-                if (hasB != (twoJ > 1)) {
-                    throw new IllegalArgumentException("b is given exactly for j > 1/2");
+                if (hasB && twoJ == 1) {
+                    throw new IllegalArgumentException("b is given only for j > 1/2 (empty for j = 1/2)");
+                }
+                if (hasB == f[8].isEmpty()) {
+                    throw new IllegalArgumentException("b and b-uncertainty are both given or both empty");
                 }
                 double b = hasB ? new BigDecimal(f[7]).doubleValue() * toHertz : 0;
                 if (hasB) {
@@ -184,23 +190,80 @@ public final class RydbergHyperfine {
      * @param context the data context (the isotope's levels and limit give n*)
      * @param species an isotope
      * @param state   a level, e.g. 60s 2S1/2
-     * @return A and B in Hz, or empty when the series has no scaling here or n is below its from-n
+     * @return A and B in Hz, or empty when the series has no scaling here or n is below its from-n; an
+     *         isotope without a row of its own uses another isotope's row of the element, scaled by the
+     *         ratio of the two isotopes' measured ground-level A (and first p3/2 B) constants
      */
     public Optional<HyperfineConstants> constants(DataContext context, Species species, State state) {
         Objects.requireNonNull(context, "context");
         Objects.requireNonNull(state, "state");
         Optional<Series> row = series(species, state.l(), state.twoJ());
-        if (row.isEmpty() || state.n() < row.get().fromN()) {
-            return Optional.empty();
+        if (row.isPresent()) {
+            return state.n() < row.get().fromN() ? Optional.empty() : scaled(context, species, state, row.get(), 1, 1, "");
         }
-        Series s = row.get();
+        return fromOtherIsotope(context, species, state);
+    }
+
+    /** The row's constants at {@code state} of {@code species}, A times aRatio and B times bRatio. */
+    private static Optional<HyperfineConstants> scaled(DataContext context, Species species, State state, Series s,
+            double aRatio, double bRatio, String how) {
         AlkaliAtom atom = context.alkaliAtom(species);
         double nStar = atom.level(state).effectiveN();
         double scale = s.kind().equals("level")
                 ? Math.pow(atom.level(State.of(s.referenceN(), s.l(), s.twoJ())).effectiveN() / nStar, 3)
                 : Math.pow(nStar, -3);
-        return Optional.of(new HyperfineConstants(s.aHertz() * scale, s.bHertz() * scale, s.source() + " ("
-                + s.provenance().id() + "), scaled as n*^-3"));
+        return Optional.of(new HyperfineConstants(s.aHertz() * scale * aRatio, s.bHertz() * scale * bRatio,
+                s.source() + " (" + s.provenance().id() + ")" + how + ", scaled as n*^-3"));
+    }
+
+    /**
+     * An isotope without a row of its own borrows another isotope's row of the same element: A times
+     * the ratio of the two isotopes' measured ground-level A constants (the ratio of the nuclear
+     * moments mu/I; hyperfine anomalies of a few 0.1 % are neglected, common practice), B times the
+     * ratio of their measured first p3/2 B constants (B is proportional to the nuclear quadrupole
+     * moment; common practice). Empty when the ratio needed is not measured, or n is below the row's
+     * from-n.
+     */
+    private Optional<HyperfineConstants> fromOtherIsotope(DataContext context, Species species, State state) {
+        AlkaliHyperfine measured = context.alkaliHyperfine();
+        for (Series s : series) {
+            Species other = s.species();
+            if (other.z() != species.z() || other.charge() != species.charge() || other.equals(species)
+                    || s.l() != state.l() || s.twoJ() != state.twoJ() || state.n() < s.fromN()) {
+                continue;
+            }
+            Optional<Double> aRatio = ratio(measured, species, other, 0, 1, true);
+            Optional<Double> bRatio = s.bText().isEmpty() ? Optional.of(1.0) : ratio(measured, species, other, 1, 3, false);
+            if (aRatio.isEmpty() || bRatio.isEmpty()) {
+                return Optional.empty();
+            }
+            String how = "; the " + other.notation() + " row times the ratio of the ground-level A constants "
+                    + String.format(java.util.Locale.ROOT, "%.6f", aRatio.get())
+                    + (s.bText().isEmpty() ? "" : " (B: of the first p3/2 B constants "
+                            + String.format(java.util.Locale.ROOT, "%.6f", bRatio.get()) + ")");
+            return scaled(context, species, state, s, aRatio.get(), bRatio.get(), how);
+        }
+        return Optional.empty();
+    }
+
+    /** A (or B) of the lowest measured level with this l and j of {@code species} over that of {@code other}. */
+    private static Optional<Double> ratio(AlkaliHyperfine measured, Species species, Species other, int l, int twoJ,
+            boolean a) {
+        Optional<HyperfineConstants> mine = lowest(measured, species, l, twoJ);
+        Optional<HyperfineConstants> theirs = lowest(measured, other, l, twoJ);
+        if (mine.isEmpty() || theirs.isEmpty()) {
+            return Optional.empty();
+        }
+        double num = a ? mine.get().aHertz() : mine.get().bHertz();
+        double den = a ? theirs.get().aHertz() : theirs.get().bHertz();
+        return den == 0 || num == 0 ? Optional.empty() : Optional.of(num / den);
+    }
+
+    private static Optional<HyperfineConstants> lowest(AlkaliHyperfine measured, Species species, int l, int twoJ) {
+        return measured.constants(species).stream()
+                .filter(c -> c.state().l() == l && c.state().twoJ() == twoJ)
+                .min(java.util.Comparator.comparingInt(c -> c.state().n()))
+                .map(AlkaliHyperfine.LevelConstants::constants);
     }
 
     /**
