@@ -125,6 +125,7 @@ class CalibrationSweepTest {
                 if (wide) {
                     assertTrue(partner, "seed " + seed + ": " + match.wavelength(i) + " nm flagged WIDE, no line near");
                     assertTrue(calibration.blendOffsetBound(i) > 0, "seed " + seed + ": flagged but not widened");
+                    assertEquals("blend", calibration.solution().pairFlag(i), "seed " + seed);
                     flaggedWithPartner++;
                 }
                 single += partner ? 0 : 1;
@@ -165,6 +166,35 @@ class CalibrationSweepTest {
             assertTrue(nearest < (Double) c[2], "seed " + c[0] + ": foreign line " + nearest + " px away");
             assertFalse(calibration.peaks().has(match.peakIndex(pair), PeakFlag.WIDE), "seed " + c[0]);
         }
+    }
+
+    /**
+     * The saved calibration names the widened pairs: seed 43's Ar 794.818 nm, unresolved from Ne
+     * 794.318 nm 2 pixels away, is written with {@code "flag": "blend"} and reads back so; pairs
+     * without a note have no flag member.
+     */
+    @Test
+    void theSavedCalibrationFlagsTheBlend(@org.junit.jupiter.api.io.TempDir java.nio.file.Path dir)
+            throws java.io.IOException {
+        LampExposures.Exposure exposure = new LampExposures().exposure(43, 0.6);
+        Calibration calibration = settings(exposure).calibrate(CalibrationProblem.builder(exposure.counts())
+                .lamp(exposure.lamp()).build());
+        java.nio.file.Path file = dir.resolve("calibration.json");
+        org.ritzwerk.refdata.CalibrationFiles.write(file, calibration.solution(), exposure.counts().length, "seed 43",
+                calibration.pairLabels());
+        String json = java.nio.file.Files.readString(file);
+        org.ritzwerk.data.CalibrationRecord record = org.ritzwerk.refdata.CalibrationFiles.readRecord(file);
+        int blends = 0;
+        for (int i = 0; i < record.lines().size(); i++) {
+            org.ritzwerk.data.CalibrationRecord.FittedLine line = record.lines().get(i);
+            assertEquals(calibration.blendOffsetBound(i) > 0 ? "blend" : "", line.flag(), line.line());
+            blends += line.flag().isEmpty() ? 0 : 1;
+            if (Math.abs(line.wavelengthNm() - 794.8176) < 1e-3) {
+                assertEquals("blend", line.flag());
+            }
+        }
+        assertTrue(blends >= 1 && blends < record.lines().size() / 2, blends + " blends");
+        assertEquals(blends, json.split("\"flag\" : \"blend\"", -1).length - 1, json);
     }
 
     private static Calibrator settings(LampExposures.Exposure exposure) {
