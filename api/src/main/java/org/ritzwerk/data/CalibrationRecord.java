@@ -105,9 +105,31 @@ public record CalibrationRecord(String description, int pixels, DispersionPolyno
      * @param residualPixels the residual in pixels; finite
      * @param used           whether the final fit used the pair (false: clipping rejected it)
      * @param line           the line's label; not null
+     * @param flag           a note on the pair, empty when none; {@value #BLEND} when its peak looks
+     *                       like an unresolved blend and its uncertainty was widened for that; not null
      */
     public record FittedLine(double pixel, double wavelengthNm, double sigmaNm, double residualNm,
-            double residualPixels, boolean used, String line) {
+            double residualPixels, boolean used, String line, String flag) {
+
+        /** The flag of a pair whose peak looks like an unresolved blend (its uncertainty widened). */
+        public static final String BLEND = "blend";
+
+        /**
+         * A pair with no flag.
+         *
+         * @param pixel          the peak's centroid, pixels; finite
+         * @param wavelengthNm   the reference line's wavelength, nm; finite
+         * @param sigmaNm        the pair's standard uncertainty used as its weight, nm; positive, or
+         *                       NaN when not known
+         * @param residualNm     reference minus fitted wavelength, nm; finite
+         * @param residualPixels the residual in pixels; finite
+         * @param used           whether the final fit used the pair (false: clipping rejected it)
+         * @param line           the line's label; not null
+         */
+        public FittedLine(double pixel, double wavelengthNm, double sigmaNm, double residualNm,
+                double residualPixels, boolean used, String line) {
+            this(pixel, wavelengthNm, sigmaNm, residualNm, residualPixels, used, line, "");
+        }
 
         /**
          * Validates.
@@ -120,9 +142,11 @@ public record CalibrationRecord(String description, int pixels, DispersionPolyno
          * @param residualPixels the residual in pixels; finite
          * @param used           whether the final fit used the pair (false: clipping rejected it)
          * @param line           the line's label; not null
+         * @param flag           a note on the pair, empty when none; not null
          */
         public FittedLine {
             Objects.requireNonNull(line, "line");
+            Objects.requireNonNull(flag, "flag");
             finite("pixel", pixel);
             finite("wavelength_nm", wavelengthNm);
             if (!Double.isNaN(sigmaNm) && !(sigmaNm >= 0 && sigmaNm < Double.POSITIVE_INFINITY)) {

@@ -35,7 +35,9 @@ import tools.jackson.databind.node.ObjectNode;
  *   "power_coefficients_nm": [c0, c1, ...] the same polynomial in the pixel itself, for reference
  *   "degree": 3, "rms_nm": ..., "rms_pixels": ..., "reduced_chi_square": ...,
  *   "lines_used": 31, "lines_rejected": 2,
- *   "lines": [ {"pixel", "wavelength_nm", "sigma_nm", "residual_nm", "residual_pixels", "used", "line"} ],
+ *   "lines": [ {"pixel", "wavelength_nm", "sigma_nm", "residual_nm", "residual_pixels", "used", "line",
+ *               "flag"} ],                 flag only when there is one: "blend" for a peak that
+ *                                         looks like an unresolved blend (uncertainty widened)
  *   "saturated_lines": [ {"pixel", "wavelength_nm", "line"} ]   paired but left out of the fit
  *                                         (their peaks reached the saturation level); only when any
  * }
@@ -199,6 +201,9 @@ public final class CalibrationFiles {
             line.put("residual_pixels", pair.residualPixels());
             line.put("used", pair.used());
             line.put("line", pair.line());
+            if (!pair.flag().isEmpty()) {
+                line.put("flag", pair.flag());
+            }
         }
         if (!record.saturatedLines().isEmpty()) {
             ArrayNode left = root.putArray("saturated_lines");
@@ -310,7 +315,9 @@ public final class CalibrationFiles {
                 lines.add(new CalibrationRecord.FittedLine(number(source, line, "pixel", where),
                         number(source, line, "wavelength_nm", where), optionalNumber(source, line, "sigma_nm", where),
                         number(source, line, "residual_nm", where), number(source, line, "residual_pixels", where),
-                        bool(source, line, "used", where), text(source, line, "line", where)));
+                        bool(source, line, "used", where), text(source, line, "line", where),
+                        line.get("flag") == null || line.get("flag").isNull() ? ""
+                                : text(source, line, "flag", where)));
             } catch (IllegalArgumentException e) {
                 throw invalid(source, where + ": " + e.getMessage());
             }

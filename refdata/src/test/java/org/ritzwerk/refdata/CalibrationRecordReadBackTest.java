@@ -89,7 +89,7 @@ class CalibrationRecordReadBackTest {
         int n = r.nextInt(25);
         for (int i = 0; i < n; i++) {
             lines.add(new CalibrationRecord.FittedLine(anyDouble(r), anyDouble(r), anyPositiveOrNaN(r), anyDouble(r),
-                    anyDouble(r), r.nextInt(5) != 0, anyText(r, 0, 30)));
+                    anyDouble(r), r.nextInt(5) != 0, anyText(r, 0, 30), r.nextInt(4) == 0 ? anyText(r, 0, 10) : ""));
         }
         List<CalibrationRecord.SaturatedLine> saturated = new ArrayList<>();
         int m = r.nextInt(3) == 0 ? 1 + r.nextInt(4) : 0;

@@ -108,6 +108,17 @@ public final class Calibration {
         return pairLabels.get(i);
     }
 
+    /**
+     * @param i a fitted pair, 0 to {@code solution().size() - 1}
+     * @return the extra centroid uncertainty (pixels) the pair carries because its peak looks like
+     *         an unresolved blend (a poor profile fit, {@link PeakFlag#POOR_FIT}, or a width beyond
+     *         the instrument's, {@link PeakFlag#WIDE}): the most its centroid can sit from its
+     *         brighter line, added in quadrature to the statistical uncertainty; 0 when it does not
+     */
+    public double blendOffsetBound(int i) {
+        return IdentifierRefinement.blendOffsetBound(peaks, match.peakIndex(i));
+    }
+
     /** @return the lamp line of every fitted pair, in pair order */
     public List<String> pairLabels() {
         return pairLabels;

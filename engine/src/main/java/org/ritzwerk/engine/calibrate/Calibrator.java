@@ -2,6 +2,7 @@ package org.ritzwerk.engine.calibrate;
 
 import java.util.Locale;
 import java.util.Objects;
+import org.ritzwerk.data.CalibrationRecord;
 
 /**
  * The calibration job: from a lamp exposure to a pixel-to-wavelength solution, in four steps.
@@ -247,6 +248,17 @@ public final class Calibrator {
         }
         DispersionSolution solution = fitted.fit(fit);
         checkPlausible(problem, solution);
+        // Pairs whose peaks look like unresolved blends carry the note "blend" into the saved record.
+        String[] notes = new String[fitted.size()];
+        boolean any = false;
+        for (int i = 0; i < notes.length; i++) {
+            boolean blend = IdentifierRefinement.blendOffsetBound(peaks, fitted.peakIndex(i)) > 0;
+            notes[i] = blend ? CalibrationRecord.FittedLine.BLEND : "";
+            any |= blend;
+        }
+        if (any) {
+            solution = solution.withPairFlags(notes);
+        }
         return new Calibration(problem, this, peaks, first, fitted, refined.subset(saturatedOnly), solution);
     }
 

@@ -55,11 +55,22 @@ public final class DispersionSolution {
     private final double[] residual;
     private final boolean[] rejected;
     private final double[] criterion;
+    private final String[] pairFlags;
 
     DispersionSolution(double centre, double halfRange, double[] coefficients, double[][] covariance,
             double covarianceScale, double modelSelectionScale, Medium medium, double chiSquare,
             int degreesOfFreedom, double lowestPixel, double highestPixel, double[] pixel, double[] wavelength,
             double[] sigma, double[] residual, boolean[] rejected, double[] criterion) {
+        this(centre, halfRange, coefficients, covariance, covarianceScale, modelSelectionScale, medium, chiSquare,
+                degreesOfFreedom, lowestPixel, highestPixel, pixel, wavelength, sigma, residual, rejected, criterion,
+                null);
+    }
+
+    private DispersionSolution(double centre, double halfRange, double[] coefficients, double[][] covariance,
+            double covarianceScale, double modelSelectionScale, Medium medium, double chiSquare,
+            int degreesOfFreedom, double lowestPixel, double highestPixel, double[] pixel, double[] wavelength,
+            double[] sigma, double[] residual, boolean[] rejected, double[] criterion, String[] pairFlags) {
+        this.pairFlags = pairFlags;
         this.centre = centre;
         this.halfRange = halfRange;
         this.coefficients = coefficients;
@@ -146,9 +157,32 @@ public final class DispersionSolution {
     }
 
     /**
+     * @param flags one note per fitted pair ("" for none), as {@link CalibrationRecord.FittedLine#flag}
+     * @return the same solution carrying those notes
+     */
+    DispersionSolution withPairFlags(String[] flags) {
+        if (flags.length != size()) {
+            throw new IllegalArgumentException(size() + " fitted pairs but " + flags.length + " flags");
+        }
+        return new DispersionSolution(centre, halfRange, coefficients, covariance, covarianceScale,
+                modelSelectionScale, medium, chiSquare, degreesOfFreedom, lowestPixel, highestPixel, pixel, wavelength,
+                sigma, residual, rejected, criterion, flags.clone());
+    }
+
+    /**
+     * @param i a fitted pair
+     * @return its note ({@link CalibrationRecord.FittedLine#BLEND} for a peak that looks like an
+     *         unresolved blend, whose uncertainty was widened), "" when none
+     */
+    public String pairFlag(int i) {
+        java.util.Objects.checkIndex(i, size());
+        return pairFlags == null ? "" : pairFlags[i];
+    }
+
+    /**
      * The solution as a calibration record, as a calibration file saves it: the polynomial, the
      * quality figures ({@link #rmsNm()}, {@link #rmsPixels()}, {@link #reducedChiSquare()}, NaN
-     * when not known) and every fitted pair with its label.
+     * when not known) and every fitted pair with its label and its note ({@link #pairFlag}).
      *
      * @param pixels      the detector's pixel count, at least 2
      * @param description free text: what the calibration came from
@@ -166,7 +200,7 @@ public final class DispersionSolution {
         List<CalibrationRecord.FittedLine> lines = new ArrayList<>(size());
         for (int i = 0; i < size(); i++) {
             lines.add(new CalibrationRecord.FittedLine(pixel[i], wavelength[i], sigma[i], residual[i],
-                    residualPixels(i), !rejected[i], lineLabels.get(i)));
+                    residualPixels(i), !rejected[i], lineLabels.get(i), pairFlag(i)));
         }
         return new CalibrationRecord(description, pixels, polynomial(), finiteOrNaN(rmsNm()),
                 finiteOrNaN(rmsPixels()), finiteOrNaN(reducedChiSquare()), lines, saturated);

@@ -105,9 +105,10 @@ final class IdentifierRefinement {
     /**
      * How far (pixels) the centroid of a peak that looks like an unresolved blend may lie from its
      * brighter component, 0 for a peak that does not. A peak whose profile fit failed the
-     * chi-square test ({@link PeakFlag#POOR_FIT}) and is wider than the instrument there (the
-     * median FWHM of the {@value #WIDTH_NEIGHBOURS} nearest peaks that are neither poorly fitted
-     * nor saturated) is taken to be two lines closer than the resolution. Peaks fitted together
+     * chi-square test ({@link PeakFlag#POOR_FIT}), or whose width alone exceeds the instrument's
+     * by more than its uncertainty allows ({@link PeakFlag#WIDE}), and is wider than the instrument
+     * there (the median FWHM of the {@value #WIDTH_NEIGHBOURS} nearest peaks that are neither
+     * poorly fitted, too wide nor saturated) is taken to be two lines closer than the resolution. Peaks fitted together
      * ({@link PeakFlag#BLENDED}) share one width, so an excess width cannot be laid on one of them:
      * every member of such a group gets the bound, which costs a group with one unresolved member
      * some weight but never trusts the wrong one. (Limiting the bound to peaks fitted alone solved
@@ -122,7 +123,7 @@ final class IdentifierRefinement {
      * pixels off; as the lone end pair it bent the cubic by 0.74 pixel.)
      */
     static double blendOffsetBound(Peaks peaks, int k) {
-        if (!peaks.has(k, PeakFlag.POOR_FIT)) {
+        if (!peaks.has(k, PeakFlag.POOR_FIT) && !peaks.has(k, PeakFlag.WIDE)) {
             return 0;
         }
         int n = peaks.size();
@@ -144,6 +145,7 @@ final class IdentifierRefinement {
                 next = right++;
             }
             if (!peaks.has(next, PeakFlag.POOR_FIT) && !peaks.has(next, PeakFlag.SATURATED)
+                    && !peaks.has(next, PeakFlag.WIDE)
                     && Double.isFinite(peaks.fwhm(next))) {
                 width[found++] = peaks.fwhm(next);
             }

@@ -76,6 +76,15 @@ public final class PeakFinder {
     public static final double DEFAULT_FIT_HALF_WIDTH = 2.5;
     /** Default largest number of peaks fitted together. */
     public static final int DEFAULT_MAX_BLEND = 8;
+    /**
+     * How many combined standard uncertainties a peak's FWHM must exceed the instrument's near it
+     * to be flagged {@link PeakFlag#WIDE}. At 3, a clean peak is flagged with probability 0.0013
+     * (one-sided normal tail, common practice), about once in 40 exposures of 20 lines; a flagged
+     * peak only loses weight in a dispersion fit.
+     */
+    public static final double WIDE_SIGMAS = 3;
+    /** Fewest well-fitted peaks from which the instrument's width across the detector is modelled. */
+    static final int MIN_WIDTH_PEAKS = 6;
     /** Fewest pixels a spectrum must have. */
     public static final int MIN_PIXELS = 8;
 
@@ -605,7 +614,8 @@ public final class PeakFinder {
                         }
                     }
                     out.add(group, centre, fit.covariance()[a + 1][a + 1], flux, fit.covariance()[a][a], height, fw,
-                            height / noise[nearest(centre, n)], flags);
+                            height / noise[nearest(centre, n)], flags,
+                            FWHM_PER_SIGMA * FWHM_PER_SIGMA * fit.covariance()[GaussianBlendFit.WIDTH][GaussianBlendFit.WIDTH]);
                 }
                 return;
             }
@@ -651,6 +661,91 @@ public final class PeakFinder {
         return b * b * b;
     }
 
+    /**
+     * Flags {@link PeakFlag#WIDE} every peak whose FWHM S exceeds the instrument's width there by
+     * more than {@value #WIDE_SIGMAS} standard uncertainties. The instrument's width across the
+     * detector is a weighted quadratic in the pixel (weights 1 / u(S)^2, u(S) from each profile
+     * fit's covariance) fitted to the peaks that are neither poorly fitted nor saturated, the worst
+     * outlier beyond 3 standard uncertainties removed and the fit repeated, at most a third of the
+     * peaks; the test's uncertainty is sqrt(u(S)^2 + u(m)^2) (u(m) the model's at that pixel from
+     * its covariance), times sqrt of the model's reduced chi-square when above 1, so a width trend
+     * the quadratic does not follow makes the test more cautious, not more eager. Needs at least
+     * {@value #MIN_WIDTH_PEAKS} such peaks; with fewer nothing is flagged. A two-line blend of
+     * separation d and flux shares f, 1 - f adds f (1 - f) d^2 to the profile's variance (second
+     * moments of a mixture, common practice), so this catches a pair about half a FWHM apart with
+     * comparable fluxes at S/N of a few tens; a faint partner, or one a fraction of a pixel away,
+     * changes the width too little to be seen, and no profile test can tell it from one line.
+     *
+     * @param pixels    detector pixels
+     * @param centre    centroids
+     * @param fwhm      fitted FWHMs
+     * @param fwhmSigma their standard uncertainties
+     * @param flags     the flags, updated in place
+     */
+    static void flagWide(int pixels, double[] centre, double[] fwhm, double[] fwhmSigma, int[] flags) {
+        int n = centre.length;
+        double half = Math.max(0.5, 0.5 * (pixels - 1));
+        double[] x = new double[n];
+        double[] weight = new double[n];
+        boolean[] use = new boolean[n];
+        int used = 0;
+        for (int k = 0; k < n; k++) {
+            x[k] = (centre[k] - half) / half;
+            boolean usable = Double.isFinite(fwhm[k]) && fwhmSigma[k] > 0 && Double.isFinite(fwhmSigma[k]);
+            weight[k] = usable ? 1 / (fwhmSigma[k] * fwhmSigma[k]) : 0;
+            use[k] = usable && (flags[k] & (PeakFlag.POOR_FIT.bit() | PeakFlag.SATURATED.bit())) == 0;
+            used += use[k] ? 1 : 0;
+        }
+        if (used < MIN_WIDTH_PEAKS) {
+            return;
+        }
+        int removable = used / 3;
+        PolynomialLeastSquares.Solution model;
+        double scale;
+        while (true) {
+            model = PolynomialLeastSquares.fit(x, fwhm, weight, use, 2);
+            if (model == null) {
+                return;
+            }
+            scale = Math.max(1, model.chiSquare() / (used - 3));
+            int worst = -1;
+            double worstZ = 3;
+            for (int k = 0; k < n; k++) {
+                if (use[k]) {
+                    double z = Math.abs(fwhm[k] - PolynomialLeastSquares.evaluate(model.coefficients(), x[k]))
+                            / (fwhmSigma[k] * Math.sqrt(scale));
+                    if (z > worstZ) {
+                        worstZ = z;
+                        worst = k;
+                    }
+                }
+            }
+            if (worst < 0 || removable == 0) {
+                break;
+            }
+            use[worst] = false;
+            used--;
+            removable--;
+        }
+        double[][] c = model.covariance();
+        for (int k = 0; k < n; k++) {
+            if (weight[k] == 0 || (flags[k] & PeakFlag.SATURATED.bit()) != 0) {
+                continue;
+            }
+            double[] g = {1, x[k], x[k] * x[k]};
+            double modelVariance = 0;
+            for (int i = 0; i < 3; i++) {
+                for (int j = 0; j < 3; j++) {
+                    modelVariance += g[i] * c[i][j] * g[j];
+                }
+            }
+            double excess = fwhm[k] - PolynomialLeastSquares.evaluate(model.coefficients(), x[k]);
+            if (excess > WIDE_SIGMAS * Math.sqrt(scale * (fwhmSigma[k] * fwhmSigma[k] + modelVariance))) {
+                flags[k] |= PeakFlag.WIDE.bit();
+            }
+        }
+    }
+
     /** Gathers accepted peaks, their fits and unfitted candidates, then scales and sorts them into {@link Peaks}. */
     private static final class Collector {
         private static final double Z99 = 2.3263478740408408;
@@ -667,7 +762,7 @@ public final class PeakFinder {
         private int unfittedSize;
 
         Collector(int capacity) {
-            columns = new double[7][Math.max(1, capacity)];
+            columns = new double[8][Math.max(1, capacity)];
             flags = new int[Math.max(1, capacity)];
             fitOf = new int[Math.max(1, capacity)];
         }
@@ -684,7 +779,7 @@ public final class PeakFinder {
         }
 
         void add(int fit, double centre, double centreVariance, double flux, double fluxVariance, double height,
-                double fwhm, double snr, int flag) {
+                double fwhm, double snr, int flag, double fwhmVariance) {
             if (size == flags.length) {
                 for (int c = 0; c < columns.length; c++) {
                     columns[c] = Arrays.copyOf(columns[c], 2 * size);
@@ -692,7 +787,7 @@ public final class PeakFinder {
                 flags = Arrays.copyOf(flags, 2 * size);
                 fitOf = Arrays.copyOf(fitOf, 2 * size);
             }
-            double[] row = {centre, centreVariance, flux, fluxVariance, height, fwhm, snr};
+            double[] row = {centre, centreVariance, flux, fluxVariance, height, fwhm, snr, fwhmVariance};
             for (int c = 0; c < row.length; c++) {
                 columns[c][size] = row[c];
             }
@@ -755,13 +850,15 @@ public final class PeakFinder {
                 int f = fitOf[k];
                 sorted[1][i] = Math.sqrt(columns[1][k] * scale[f]);
                 sorted[3][i] = Math.sqrt(columns[3][k] * scale[f]);
-                sorted[7][i] = fitChiSquare[f] / fitDof[f];
+                sorted[7][i] = Math.sqrt(columns[7][k] * scale[f]);
+                sorted[8][i] = fitChiSquare[f] / fitDof[f];
                 sortedFlags[i] = flags[k] | (poor[f] ? PeakFlag.POOR_FIT.bit() : 0);
             }
+            flagWide(pixels, sorted[0], sorted[5], sorted[7], sortedFlags);
             int[] unfittedSorted = Arrays.copyOf(unfitted, unfittedSize);
             Arrays.sort(unfittedSorted);
-            return new Peaks(pixels, sorted[0], sorted[1], sorted[2], sorted[3], sorted[4], sorted[5], sorted[6],
-                    sorted[7], sortedFlags, noise, pooled, baseline, unfittedSorted, sigmasGiven);
+            return new Peaks(pixels, sorted[0], sorted[1], sorted[2], sorted[3], sorted[4], sorted[5], sorted[7],
+                    sorted[6], sorted[8], sortedFlags, noise, pooled, baseline, unfittedSorted, sigmasGiven);
         }
     }
 }

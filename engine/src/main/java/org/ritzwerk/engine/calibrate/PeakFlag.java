@@ -23,7 +23,15 @@ public enum PeakFlag {
      * most often an unresolved blend or a profile that is not Gaussian. The peak's uncertainties
      * were scaled by its own fit's reduced chi-square.
      */
-    POOR_FIT;
+    POOR_FIT,
+    /**
+     * The peak's fitted width exceeds the instrument's there by more than
+     * {@value PeakFinder#WIDE_SIGMAS} combined standard uncertainties, although its profile fit may
+     * pass the chi-square test: most often two lines closer than the resolution. The instrument's
+     * width across the detector is a quadratic fitted to the widths of the peaks that are neither
+     * poorly fitted nor saturated (see {@link PeakFinder}).
+     */
+    WIDE;
 
     int bit() {
         return 1 << ordinal();

@@ -33,6 +33,7 @@ public final class Peaks {
     private final double[] fluxSigma;
     private final double[] height;
     private final double[] fwhm;
+    private final double[] fwhmSigma;
     private final double[] signalToNoise;
     private final double[] reducedChiSquare;
     private final int[] flags;
@@ -43,8 +44,8 @@ public final class Peaks {
     private final boolean pixelSigmasGiven;
 
     Peaks(int pixels, double[] centre, double[] centreSigma, double[] flux, double[] fluxSigma, double[] height,
-            double[] fwhm, double[] signalToNoise, double[] reducedChiSquare, int[] flags, double[] noise,
-            double noiseScale, double[] baseline, int[] unfitted, boolean pixelSigmasGiven) {
+            double[] fwhm, double[] fwhmSigma, double[] signalToNoise, double[] reducedChiSquare, int[] flags,
+            double[] noise, double noiseScale, double[] baseline, int[] unfitted, boolean pixelSigmasGiven) {
         this.pixels = pixels;
         this.centre = centre;
         this.centreSigma = centreSigma;
@@ -52,6 +53,7 @@ public final class Peaks {
         this.fluxSigma = fluxSigma;
         this.height = height;
         this.fwhm = fwhm;
+        this.fwhmSigma = fwhmSigma;
         this.signalToNoise = signalToNoise;
         this.reducedChiSquare = reducedChiSquare;
         this.flags = flags;
@@ -119,6 +121,16 @@ public final class Peaks {
      */
     public double fwhm(int k) {
         return fwhm[k];
+    }
+
+    /**
+     * @param k peak index
+     * @return the standard uncertainty of {@link #fwhm(int)} in pixels, from the profile fit's
+     *         covariance scaled as the centroid's is; peaks fitted together share one width and so
+     *         one uncertainty
+     */
+    public double fwhmSigma(int k) {
+        return fwhmSigma[k];
     }
 
     /**

@@ -180,16 +180,18 @@ public final class CalibrationSweep {
     }
 
     /**
-     * Prints a sweep: {@code seed runs curvature}.
+     * Prints a sweep: {@code seed runs curvature [wrong]}; with {@code wrong}, against the gases
+     * the lamp did not hold.
      *
-     * @param args first seed, runs, curvature
+     * @param args first seed, runs, curvature, optionally {@code wrong}
      */
     public static void main(String[] args) {
         long seed = Long.parseLong(args[0]);
         int runs = Integer.parseInt(args[1]);
         double curvature = Double.parseDouble(args[2]);
         long t0 = System.nanoTime();
-        Outcome outcome = run(seed, runs, curvature, Calibrator.defaults());
+        boolean wrongLamp = args.length > 3 && args[3].equals("wrong");
+        Outcome outcome = run(seed, runs, curvature, Calibrator.defaults(), wrongLamp);
         System.out.println(outcome);
         System.out.printf(Locale.ROOT, "%.1f s%n", (System.nanoTime() - t0) * 1e-9);
     }

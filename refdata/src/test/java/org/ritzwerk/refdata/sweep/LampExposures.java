@@ -39,7 +39,8 @@ public final class LampExposures {
 
     /** One exposure and its truth. */
     public record Exposure(long seed, double[] counts, LampSet lamp, String lampName, double[] truth, boolean falling,
-            double saturation, int linesInWindow, int foreign, int ghosts, double curvature) {
+            double saturation, int linesInWindow, int foreign, int ghosts, double curvature, double[] foreignNm,
+            double[] ghostNm) {
 
         /** @return the true wavelength (nm) at a pixel of the counts as given */
         public double truthAt(double pixel) {
@@ -120,16 +121,20 @@ public final class LampExposures {
             }
         }
         int ghosts = 0;
+        List<Double> ghostNm = new ArrayList<>();
         for (int i = 0; i < tableNm.length; i++) {
             double second = 2 * tableNm[i];
             if (second > start && second < end) {
                 lines.add(new double[] {second, 0.1 * lamp.lines().intensity(i)});
+                ghostNm.add(second);
                 ghosts++;
             }
         }
         int foreign = random.nextInt(5);
+        double[] foreignNm = new double[foreign];
         for (int k = 0; k < foreign; k++) {
             lines.add(new double[] {start + (end - start) * random.nextDouble(), 50 + 400 * random.nextDouble()});
+            foreignNm[k] = lines.get(lines.size() - 1)[0];
         }
         double strongest = 0;
         for (double[] line : lines) {
@@ -168,7 +173,7 @@ public final class LampExposures {
             }
         }
         return new Exposure(seed, counts, lamp, lampName, truth, falling, saturation, inWindow, foreign, ghosts,
-                kappa);
+                kappa, foreignNm, ghostNm.stream().mapToDouble(Double::doubleValue).toArray());
     }
 
     /**
