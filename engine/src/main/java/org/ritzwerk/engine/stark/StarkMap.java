@@ -416,7 +416,9 @@ public final class StarkMap {
      * rotations (O(n^2 b), see {@code BandReduction}), which are applied to the reference state's
      * unit vector as well; LAPACK's {@code DSTEMR} (multiple relatively robust representations,
      * O(n^2)) gives the eigenvalues and the tridiagonal eigenvectors, and the reference's share in
-     * each eigenstate is the squared product of those with the rotated reference vector.
+     * each eigenstate is the squared product of those with the rotated reference vector. A map with
+     * a share window ({@link #withShareWindowHz}) computes every eigenvalue with {@code DSTERF} and the
+     * eigenvectors, and so the shares, of the eigenstates in the window only.
      *
      * @param fieldsVPerM the fields, V/m, finite; at least one
      * @param reference   the zero-field state whose share in each eigenstate is reported (a basis state)
