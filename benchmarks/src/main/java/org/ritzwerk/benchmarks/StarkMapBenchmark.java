@@ -19,7 +19,9 @@ import org.ritzwerk.engine.stark.StarkMapResult;
  * A Stark map of Rb-87 at m_j = 1/2 with every l in n = 60 to nMax (nMax = 67: 1,008 basis states,
  * half-bandwidth 23), diagonalised at {@code fields} field values up to 5 V/cm: the engine's
  * paths (Givens band reduction, then LAPACK's tridiagonal {@code DSTEMR} with the characters,
- * {@code banded}, or {@code DSTERF} for the energies alone, {@code bandedEnergies}) beside the naive
+ * {@code banded}, or {@code DSTERF} for the energies alone, {@code bandedEnergies}, or every energy by
+ * {@code DSTERF} and the characters of the eigenstates within {@code windowGHz} of 61D5/2 alone by
+ * {@code DSTEMR} over their index range, {@code bandedWindowed}, as the stark-map command solves) beside the naive
  * baseline, Commons Math's dense symmetric {@code EigenDecomposition} of the whole matrix at each
  * field, which accumulates every eigenvector (the engine's earlier banded path, Commons Math's
  * tridiagonal decomposition, ran at the dense path's speed, ratio 1.04). The basis, its levels and
@@ -47,7 +49,12 @@ public class StarkMapBenchmark {
     @Param({"1"})
     public int threads;
 
+    /** Half-width of the share window of {@code bandedWindowed}, GHz (the stark-map command's default). */
+    @Param({"20"})
+    public double windowGHz;
+
     StarkMap map;
+    StarkMap windowedMap;
     double[] fieldValues;
     org.ritzwerk.atom.State reference;
 
@@ -60,12 +67,19 @@ public class StarkMapBenchmark {
             fieldValues[i] = 500.0 * (i + 1) / fields;
         }
         reference = org.ritzwerk.atom.State.of(61, 2, 5);
+        windowedMap = map.withShareWindowHz(-windowGHz * 1e9, windowGHz * 1e9);
     }
 
     /** @return the map, banded path */
     @Benchmark
     public StarkMapResult banded() {
         return map.solve(fieldValues, reference);
+    }
+
+    /** @return the map's energies, with characters only within the window, banded path */
+    @Benchmark
+    public StarkMapResult bandedWindowed() {
+        return windowedMap.solve(fieldValues, reference);
     }
 
     /** @return the map's energies only, banded path */

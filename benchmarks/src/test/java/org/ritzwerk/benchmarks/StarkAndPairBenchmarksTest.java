@@ -1,6 +1,7 @@
 package org.ritzwerk.benchmarks;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.engine.stark.StarkMapResult;
@@ -14,8 +15,10 @@ class StarkAndPairBenchmarksTest {
         b.nMax = 61;
         b.fields = 2;
         b.threads = 2;
+        b.windowGHz = 20;
         b.setUp();
         StarkMapResult banded = b.banded();
+        StarkMapResult windowed = b.bandedWindowed();
         StarkMapResult energies = b.bandedEnergies();
         StarkMapResult dense = b.naiveDense();
         for (int f = 0; f < 2; f++) {
@@ -24,11 +27,21 @@ class StarkAndPairBenchmarksTest {
             double[] e3 = energies.energiesPerCm(f);
             double[] c1 = banded.characters(f);
             double[] c2 = dense.characters(f);
+            double[] e4 = windowed.energiesPerCm(f);
+            double[] hz = windowed.energiesRelativeHz(f);
+            int shared = 0;
             for (int i = 0; i < e1.length; i++) {
                 assertEquals(e2[i], e1[i], 1e-9);
                 assertEquals(e2[i], e3[i], 1e-9);
+                assertEquals(e2[i], e4[i], 1e-9);
                 assertEquals(c2[i], c1[i], 1e-6);
+                assertEquals(Math.abs(hz[i]) <= 20e9, windowed.hasShare(f, i));
+                if (windowed.hasShare(f, i)) {
+                    assertEquals(c2[i], windowed.share(f, i), 1e-6);
+                    shared++;
+                }
             }
+            assertTrue(shared > 0 && shared < e1.length, shared + " of " + e1.length + " in the window");
         }
     }
 

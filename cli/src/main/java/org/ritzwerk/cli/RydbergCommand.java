@@ -245,7 +245,10 @@ final class RydbergCommand implements Runnable {
             for (int k = 0; k <= steps; k++) {
                 fields[k] = fieldMax * k / steps * 100; // V/cm -> V/m
             }
-            StarkMapResult result = map.solve(fields, state);
+            // Shares only where rows are listed: the window, widened by 1e-9 of itself so that every row
+            // the |energy| <= window test below keeps carries its share.
+            double edgeHz = window * 1e9 * (1 + 1e-9);
+            StarkMapResult result = map.withShareWindowHz(-edgeHz, edgeHz).solve(fields, state);
             Table table = new Table(List.of(Table.Column.number("field_v_per_cm", "field V/cm", "%.6g"),
                     Table.Column.number("energy_ghz", "energy GHz", "%.6f"),
                     Table.Column.number("share", "share of " + state.label(), "%.4f")),
@@ -253,12 +256,12 @@ final class RydbergCommand implements Runnable {
             List<double[]> points = new ArrayList<>();
             for (int f = 0; f < result.fieldCount(); f++) {
                 double[] e = result.energiesRelativeHz(f);
-                double[] c = result.characters(f);
                 for (int i = 0; i < e.length; i++) {
                     double ghz = e[i] / 1e9;
                     if (Math.abs(ghz) <= window) {
-                        table.add(fields[f] / 100, ghz, c[i]);
-                        points.add(new double[] {fields[f] / 100, ghz, c[i]});
+                        double share = result.share(f, i);
+                        table.add(fields[f] / 100, ghz, share);
+                        points.add(new double[] {fields[f] / 100, ghz, share});
                     }
                 }
             }

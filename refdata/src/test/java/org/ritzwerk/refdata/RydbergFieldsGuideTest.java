@@ -1,6 +1,7 @@
 package org.ritzwerk.refdata;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
@@ -50,6 +51,26 @@ class RydbergFieldsGuideTest {
         assertEquals(-0.5 * alpha * 1e6, shiftHz, 0.01 * Math.abs(shiftHz));
         double atTwo = result.referenceShiftHz(4);
         assertTrue(atTwo / shiftHz > 4 && atTwo / shiftHz < 4.2, "beyond quadratic at 2 V/cm: " + atTwo / shiftHz);
+    }
+
+    @Test
+    void starkMapWithAShareWindow() {
+        StarkMap map = StarkMap.builder(RB).projection(1).principalRange(48, 52).maxOrbital(10).build();
+        double[] fieldsVPerM = {0, 50, 100, 150, 200};
+        StarkMapResult windowed = map.withShareWindowHz(-20e9, 20e9)   // 50S's share only within 20 GHz of it
+                .solve(fieldsVPerM, State.of(50, 0, 1));
+        int strongest = windowed.strongestIndex(2);                     // found in the window
+        boolean inside = windowed.hasShare(2, strongest);               // true
+        boolean far = windowed.hasShare(2, 0);                          // false: the lowest state, far below
+
+        assertTrue(inside);
+        assertTrue(!far);
+        assertThrows(IllegalStateException.class, () -> windowed.share(2, 0));  // no share outside, not a zero
+        double full = map.solve(fieldsVPerM, State.of(50, 0, 1)).referenceShiftHz(2);
+        assertEquals(full, windowed.referenceShiftHz(2), 30);          // 1e-9 cm^-1 = 30 Hz
+        // 0.6 % of 50S lies outside: its admixture into the 50P states about 30 GHz above, at 1 V/cm
+        double outside = windowed.shareOutsideWindow(2);
+        assertTrue(outside > 1e-3 && outside < 0.01, "50S outside the window: " + outside);
     }
 
     @Test

@@ -45,7 +45,10 @@ import org.ritzwerk.engine.internal.units.AtomicUnits;
  * baseline. Profiling the dense and the earlier banded path (Commons Math's tridiagonal
  * decomposition) at 1,008 states put 96 % of the time in that accumulation and under 5 % in
  * building the matrix and reducing the band. StarkMapBenchmark measures the paths side by side.
- * Fields are independent; {@link #withThreads} spreads them over threads.
+ * Fields are independent; {@link #withThreads} spreads them over threads. A map looked at in an
+ * energy window around the state of interest needs the shares only there:
+ * {@link #withShareWindowHz} keeps every energy ({@code DSTERF}) and computes the eigenvectors of
+ * the eigenstates in the window alone ({@code DSTEMR} over an index range).
  *
  * <p><b>Accuracy</b>: a state's energy converges as the n range grows around it (see the tests:
  * hydrogen's linear Stark effect, {@code (3/2) n (n1 - n2) F}, within 1e-6 n^2 of the slope in one manifold; the Rb
@@ -67,9 +70,11 @@ public final class StarkMap {
     private final double[] values;
     private final int halfBandwidth;
     private final int threads;
+    /** The share window, Hz relative to the reference's zero-field energy; null when every share is computed. */
+    private final double[] shareWindowHz;
 
     private StarkMap(AlkaliAtom atom, int twoMj, List<State> basis, double[] energiesPerCm, int[] rows,
-            int[] columns, double[] values, int halfBandwidth, int threads) {
+            int[] columns, double[] values, int halfBandwidth, int threads, double[] shareWindowHz) {
         this.atom = atom;
         this.twoMj = twoMj;
         this.basis = basis;
@@ -79,6 +84,7 @@ public final class StarkMap {
         this.values = values;
         this.halfBandwidth = halfBandwidth;
         this.threads = threads;
+        this.shareWindowHz = shareWindowHz;
     }
 
     /**
@@ -241,7 +247,7 @@ public final class StarkMap {
                 }
             }
             return new StarkMap(atom, twoMj, Collections.unmodifiableList(states), energies, Arrays.copyOf(r, count),
-                    Arrays.copyOf(c, count), Arrays.copyOf(v, count), band, 1);
+                    Arrays.copyOf(c, count), Arrays.copyOf(v, count), band, 1, null);
         }
     }
 
@@ -323,7 +329,8 @@ public final class StarkMap {
         if (threads < 1) {
             throw new IllegalArgumentException("threads must be >= 1, got " + threads);
         }
-        return new StarkMap(atom, twoMj, basis, energiesPerCm, rows, columns, values, halfBandwidth, threads);
+        return new StarkMap(atom, twoMj, basis, energiesPerCm, rows, columns, values, halfBandwidth, threads,
+                shareWindowHz);
     }
 
     /** @return the number of threads a solve uses */
@@ -332,11 +339,86 @@ public final class StarkMap {
     }
 
     /**
+     * The same map, whose {@link #solve} computes every eigenstate's energy but the reference's share
+     * only in the eigenstates whose energy lies in a window: from {@code lowerHz} to {@code upperHz}
+     * (both included) relative to the reference state's zero-field energy, the scale of
+     * {@link StarkMapResult#energiesRelativeHz}. The energies come from LAPACK's {@code DSTERF}; the
+     * eigenvectors of the eigenstates in the window only from {@code DSTEMR} with an index range
+     * ({@code RANGE = 'I'}), so a map whose window holds k of its n states costs about k / n of the
+     * vectors. The result says which eigenstates carry a share ({@link StarkMapResult#hasShare}) and
+     * refuses to give one it has not computed. {@link #solveEnergies} computes no share and
+     * {@link #solveDense}, the baseline, every share, whatever the window.
+     *
+     * @param lowerHz the window's lower edge, Hz relative to the reference's zero-field energy; finite
+     * @param upperHz its upper edge, Hz, finite and above {@code lowerHz}
+     * @return a map that solves with that window
+     * @throws IllegalArgumentException when an edge is not finite or the edges are not in order
+     */
+    public StarkMap withShareWindowHz(double lowerHz, double upperHz) {
+        requireFiniteEdge("lower", lowerHz);
+        requireFiniteEdge("upper", upperHz);
+        if (!(lowerHz < upperHz)) {
+            throw new IllegalArgumentException("the share window's lower edge (" + lowerHz + " Hz) must be below its"
+                    + " upper edge (" + upperHz + " Hz)");
+        }
+        return new StarkMap(atom, twoMj, basis, energiesPerCm, rows, columns, values, halfBandwidth, threads,
+                new double[] {lowerHz, upperHz});
+    }
+
+    private static void requireFiniteEdge(String which, double hz) {
+        if (Double.isNaN(hz)) {
+            throw new IllegalArgumentException("the share window's " + which + " edge must be a finite frequency in"
+                    + " Hz, got a value that is not a number");
+        }
+        if (Double.isInfinite(hz)) {
+            throw new IllegalArgumentException("the share window's " + which + " edge must be a finite frequency in"
+                    + " Hz, got " + (hz > 0 ? "" : "minus ") + "a value too large for a double");
+        }
+    }
+
+    /**
+     * @return the same map computing every share in {@link #solve} (the default)
+     */
+    public StarkMap withoutShareWindow() {
+        return new StarkMap(atom, twoMj, basis, energiesPerCm, rows, columns, values, halfBandwidth, threads, null);
+    }
+
+    /** @return whether {@link #solve} computes shares only within a window ({@link #withShareWindowHz}) */
+    public boolean hasShareWindow() {
+        return shareWindowHz != null;
+    }
+
+    /**
+     * @return the share window's lower edge, Hz relative to the reference's zero-field energy
+     * @throws IllegalStateException when the map has no share window
+     */
+    public double shareWindowLowerHz() {
+        return requireWindow()[0];
+    }
+
+    /**
+     * @return the share window's upper edge, Hz relative to the reference's zero-field energy
+     * @throws IllegalStateException when the map has no share window
+     */
+    public double shareWindowUpperHz() {
+        return requireWindow()[1];
+    }
+
+    private double[] requireWindow() {
+        if (shareWindowHz == null) {
+            throw new IllegalStateException("this Stark map has no share window; see withShareWindowHz");
+        }
+        return shareWindowHz;
+    }
+
+    /**
      * Diagonalises at every field: the banded Hamiltonian is reduced to tridiagonal form by Givens
      * rotations (O(n^2 b), see {@code BandReduction}), which are applied to the reference state's
      * unit vector as well; LAPACK's {@code DSTEMR} (multiple relatively robust representations,
      * O(n^2)) gives the eigenvalues and the tridiagonal eigenvectors, and the reference's share in
-     * each eigenstate is the squared product of those with the rotated reference vector.
+     * each eigenstate is the squared product of those with the rotated reference vector. A map with
+     * a share window ({@link #withShareWindowHz}) computes every eigenvalue with {@code DSTERF} and the
+     * eigenvectors, and so the shares, of the eigenstates in the window only.
      *
      * @param fieldsVPerM the fields, V/m, finite; at least one
      * @param reference   the zero-field state whose share in each eigenstate is reported (a basis state)
@@ -344,7 +426,7 @@ public final class StarkMap {
      * @throws StarkException ({@link StarkException#BAD_BASIS}) when the reference is not in the basis
      */
     public StarkMapResult solve(double[] fieldsVPerM, State reference) {
-        return solve(fieldsVPerM, reference, Path.BANDED);
+        return solve(fieldsVPerM, reference, shareWindowHz == null ? Path.BANDED : Path.WINDOWED);
     }
 
     /**
@@ -377,7 +459,7 @@ public final class StarkMap {
 
     /** How one field is diagonalised. */
     private enum Path {
-        BANDED, ENERGIES, DENSE
+        BANDED, WINDOWED, ENERGIES, DENSE
     }
 
     private StarkMapResult solve(double[] fieldsVPerM, State reference, Path path) {
@@ -395,9 +477,10 @@ public final class StarkMap {
         double[] fields = fieldsVPerM.clone();
         double[][] energies = new double[fields.length][];
         double[][] characters = path == Path.ENERGIES ? null : new double[fields.length][];
+        int[] firstShared = path == Path.WINDOWED ? new int[fields.length] : null;
         if (threads == 1 || fields.length == 1) {
             for (int f = 0; f < fields.length; f++) {
-                solveOne(fields, f, ref, origin, path, energies, characters);
+                solveOne(fields, f, ref, origin, path, energies, characters, firstShared);
             }
         } else {
             ExecutorService pool = Executors.newFixedThreadPool(Math.min(threads, fields.length), runnable -> {
@@ -409,7 +492,8 @@ public final class StarkMap {
                 List<Future<?>> done = new ArrayList<>();
                 for (int f = 0; f < fields.length; f++) {
                     int field = f;
-                    done.add(pool.submit(() -> solveOne(fields, field, ref, origin, path, energies, characters)));
+                    done.add(pool.submit(() -> solveOne(fields, field, ref, origin, path, energies, characters,
+                            firstShared)));
                 }
                 for (Future<?> future : done) {
                     future.get();
@@ -430,12 +514,19 @@ public final class StarkMap {
                 pool.shutdownNow();
             }
         }
-        return new StarkMapResult(basis, twoMj, reference, origin, fields, energies, characters);
+        if (path == Path.WINDOWED) {
+            return new StarkMapResult(basis, twoMj, reference, origin, fields, energies, characters,
+                    shareWindowHz.clone(), firstShared);
+        }
+        return new StarkMapResult(basis, twoMj, reference, origin, fields, energies, characters, null, null);
     }
 
-    /** Diagonalises at field {@code f} and stores its energies (cm^-1) and characters. */
+    /**
+     * Diagonalises at field {@code f} and stores its energies (cm^-1) and characters; on the windowed
+     * path the characters are those of the eigenstates {@code firstShared[f]} onwards, in the window.
+     */
     private void solveOne(double[] fields, int f, int ref, double origin, Path path, double[][] energies,
-            double[][] characters) {
+            double[][] characters, int[] firstShared) {
         int n = basis.size();
         double fieldAu = fields[f] / AtomicUnits.FIELD_V_PER_M;
         double[] e = new double[n];
@@ -466,6 +557,10 @@ public final class StarkMap {
             reduction.reduce();
             double[] d = reduction.diagonal();
             double[] off = reduction.offDiagonal();
+            if (path == Path.WINDOWED) {
+                windowed(d, off, w, f, origin, energies, characters, firstShared);
+                return;
+            }
             e = path == Path.ENERGIES ? TridiagonalEigen.eigenvalues(d, off)
                     : TridiagonalEigen.eigenvaluesAndShares(d, off, w, c);
         }
@@ -475,6 +570,37 @@ public final class StarkMap {
         energies[f] = e;
         if (characters != null) {
             characters[f] = c;
+        }
+    }
+
+    /**
+     * The windowed path at one field: every eigenvalue by {@code DSTERF}, the index range of those
+     * in the share window (judged on {@link StarkMapResult#energiesRelativeHz}'s scale, so the result
+     * and its window agree state by state), and {@code DSTEMR}'s vectors for that range alone.
+     */
+    private void windowed(double[] d, double[] off, double[] tracked, int f, double origin, double[][] energies,
+            double[][] characters, int[] firstShared) {
+        int n = d.length;
+        double[] e = TridiagonalEigen.eigenvalues(d.clone(), off.clone());
+        int first = -1;
+        int last = -2;
+        for (int i = 0; i < n; i++) {
+            e[i] = e[i] * AtomicUnits.HARTREE_PER_CM + origin;
+            double hz = StarkMapResult.relativeHz(e[i], origin);
+            if (hz >= shareWindowHz[0] && hz <= shareWindowHz[1]) {
+                if (first < 0) {
+                    first = i;
+                }
+                last = i;
+            }
+        }
+        energies[f] = e;
+        if (first < 0) {
+            firstShared[f] = 0;
+            characters[f] = new double[0];
+        } else {
+            firstShared[f] = first;
+            characters[f] = TridiagonalEigen.sharesOfIndexRange(d, off, tracked, first, last);
         }
     }
 }

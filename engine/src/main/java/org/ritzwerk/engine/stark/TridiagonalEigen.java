@@ -15,7 +15,8 @@ import java.lang.invoke.MethodType;
  * SIAM (1999)), O(n^2);</li>
  * <li>eigenvalues and eigenvectors: {@code DSTEMR}, the multiple relatively robust representations
  * algorithm (I. S. Dhillon, B. N. Parlett and C. Voemel, ACM Trans. Math. Softw. 32, 533 (2006)),
- * O(n^2) for all n vectors, where the implicit QL with accumulated rotations costs O(n^3).</li>
+ * O(n^2) for all n vectors, where the implicit QL with accumulated rotations costs O(n^3); with
+ * {@code RANGE = 'I'} only the vectors of an index range of eigenvalues, O(n k) for k of them.</li>
  * </ul>
  * Of the eigenvectors only one number each is kept: the squared projection of a tracked vector
  * (the reference state carried through the band reduction). LAPACK's saved machine constants
@@ -119,6 +120,61 @@ final class TridiagonalEigen {
             shares[i] = overlap * overlap;
         }
         return w;
+    }
+
+    /**
+     * The shares of a contiguous run of eigenstates: {@code DSTEMR} with {@code RANGE = 'I'} computes
+     * the eigenvectors of the eigenvalues with (0-based, ascending) indices {@code first} to
+     * {@code last} only, O(n k) for k vectors after the representation tree is built.
+     *
+     * @param diagonal    the diagonal, n values, not changed
+     * @param offDiagonal the first off-diagonal, n - 1 values, not changed
+     * @param tracked     a vector of n values in the tridiagonal basis
+     * @param first       the index of the lowest eigenvalue wanted, 0 &le; first &le; last
+     * @param last        the index of the highest eigenvalue wanted, last &lt; n
+     * @return {@code (tracked . v_i)^2} for i = first to last, in that order
+     * @throws ArithmeticException when the algorithm fails (LAPACK's INFO &ne; 0) or finds another
+     *                             number of eigenvalues
+     */
+    static double[] sharesOfIndexRange(double[] diagonal, double[] offDiagonal, double[] tracked, int first,
+            int last) {
+        int n = diagonal.length;
+        if (first < 0 || last < first || last >= n) {
+            throw new IllegalArgumentException("eigenvalue indices must satisfy 0 <= first <= last < " + n + ", got "
+                    + first + " to " + last);
+        }
+        int k = last - first + 1;
+        double[] d = diagonal.clone();
+        double[] e = new double[n];
+        System.arraycopy(offDiagonal, 0, e, 0, n - 1);
+        double[] w = new double[n];
+        double[] z = new double[n * k];
+        int[] support = new int[2 * k];
+        double[] work = new double[18 * n];
+        int[] iwork = new int[10 * n];
+        Object found = holder(0);
+        Object info = holder(0);
+        try {
+            DSTEMR.invoke(LAPACK, "V", "I", n, d, e, 0.0, 0.0, first + 1, last + 1, found, w, z, n, k, support,
+                    NEW_BOOLEAN.invoke(true), work, work.length, iwork, iwork.length, info);
+        } catch (Throwable t) {
+            throw rethrow("DSTEMR", t);
+        }
+        check("DSTEMR", value(info));
+        if (value(found) != k) {
+            throw new ArithmeticException("DSTEMR found " + value(found) + " of the " + k + " eigenvalues "
+                    + (first + 1) + " to " + (last + 1));
+        }
+        double[] shares = new double[k];
+        for (int i = 0; i < k; i++) {
+            double overlap = 0;
+            int column = i * n;
+            for (int j = 0; j < n; j++) {
+                overlap += z[column + j] * tracked[j];
+            }
+            shares[i] = overlap * overlap;
+        }
+        return shares;
     }
 
     private static Object holder(int initial) {
