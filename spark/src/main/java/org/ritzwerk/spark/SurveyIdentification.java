@@ -7,6 +7,7 @@ import static org.apache.spark.sql.functions.forall;
 import static org.apache.spark.sql.functions.lit;
 import static org.apache.spark.sql.functions.sort_array;
 import static org.apache.spark.sql.functions.struct;
+import static org.apache.spark.sql.functions.udf;
 import static org.apache.spark.sql.functions.when;
 
 import java.util.Arrays;
@@ -15,7 +16,9 @@ import java.util.Objects;
 import org.apache.spark.sql.Column;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
+import org.apache.spark.sql.api.java.UDF2;
 import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.sql.types.DataTypes;
 import org.apache.spark.unsafe.types.UTF8String;
 import org.ritzwerk.RitzwerkException;
 import org.ritzwerk.atom.Species;
@@ -89,14 +92,52 @@ public final class SurveyIdentification {
      * @param peakRows a table with the columns of {@link Schemas#PEAK_ROWS}, one row per peak
      * @return one row per spectrum id with the columns of {@link Schemas#PEAK_LISTS}, each array
      *         ordered by the {@code peak} column; a spectrum's sigmas (intensities, widths) are null
-     *         unless every one of its peaks gives one
+     *         unless every one of its peaks gives one. Reading its positions fails the job with a
+     *         {@link SparkRowException} naming the id and the peak when two rows of one id have the
+     *         same peak (the order would be undefined) or a peak is null.
      */
     public static Dataset<Row> peakLists(Dataset<Row> peakRows) {
         Fields.of(peakRows.schema(), Schemas.PEAK_ROWS, "peak-row");
         Dataset<Row> grouped = peakRows.groupBy(col("id")).agg(sort_array(collect_list(struct(col("peak"),
                 col("position"), col("sigma"), col("intensity"), col("width")))).as("p"));
-        return grouped.select(col("id"), col("p").getField("position").as("positions"), whole(col("p"), "sigma", "sigmas"),
-                whole(col("p"), "intensity", "intensities"), whole(col("p"), "width", "widths"));
+        // The check is part of the positions column, so that no use of the peak lists escapes it.
+        Column unique = udf(new UniquePeaks(), DataTypes.BooleanType).apply(col("id"), col("p").getField("peak"));
+        return grouped.select(col("id"), when(unique, col("p").getField("position")).as("positions"),
+                whole(col("p"), "sigma", "sigmas"), whole(col("p"), "intensity", "intensities"),
+                whole(col("p"), "width", "widths"));
+    }
+
+    /**
+     * The check of one spectrum's peak indices, sorted ascending (nulls first): true, or a
+     * {@link SparkRowException} naming the id and the first repeated (or null) peak.
+     */
+    static final class UniquePeaks implements UDF2<String, scala.collection.Seq<Integer>, Boolean> {
+        private static final long serialVersionUID = 1L;
+
+        @Override
+        public Boolean call(String id, scala.collection.Seq<Integer> peaks) {
+            int n = peaks.size();
+            Integer previous = null;
+            int copies = 1;
+            for (int k = 0; k < n; k++) {
+                Integer peak = peaks.apply(k);
+                if (peak == null) {
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "is null in one of this"
+                            + " spectrum's peak rows; each peak row needs its index in the spectrum");
+                }
+                if (peak.equals(previous)) {
+                    copies++;
+                    if (k + 1 < n && peak.equals(peaks.apply(k + 1))) {
+                        continue;
+                    }
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "peak " + peak + " is given"
+                            + " by " + copies + " rows of this spectrum; each peak of a spectrum needs its own index"
+                            + " (the arrays are ordered by it)");
+                }
+                previous = peak;
+            }
+            return Boolean.TRUE;
+        }
     }
 
     private static Column whole(Column peaks, String field, String name) {
@@ -139,6 +180,8 @@ public final class SurveyIdentification {
         private List<Species> notationsOf;
         private UTF8String[] notations;
         private String[] notationTexts;
+        /** The fixed window's missing-line names by line index, made at first use; null until then. */
+        private UTF8String[] lineNames;
 
         Setup(IdentificationParameters p) {
             this.p = p;
@@ -278,9 +321,17 @@ public final class SurveyIdentification {
             ShiftSearch.Fit offset = report.offset().orElse(null);
             int[] missing = result.missingStrongLines();
             Object[] missingNames = new Object[missing.length];
+            UTF8String[] names = missing.length == 0 ? null : lineNames();
             for (int k = 0; k < missing.length; k++) {
-                missingNames[k] = Catalyst.utf8(notationTexts[lines.speciesIndex(missing[k])] + " "
-                        + lines.label(missing[k]));
+                int j = missing[k];
+                UTF8String name = names == null ? null : names[j];
+                if (name == null) {
+                    name = Catalyst.utf8(notationTexts[lines.speciesIndex(j)] + " " + lines.label(j));
+                    if (names != null) {
+                        names[j] = name;
+                    }
+                }
+                missingNames[k] = name;
             }
             List<Identification.SpeciesPresence> presence = result.speciesPresence();
             Object[] presenceRows = new Object[presence.size()];
@@ -303,6 +354,19 @@ public final class SurveyIdentification {
                     offset == null ? null : offset.matches(),
                     Catalyst.array(missingNames), Catalyst.array(presenceRows),
                     plasma == null ? null : Catalyst.array(plasma), null, null);
+        }
+
+        /**
+         * @return for the fixed window, its lines' "species label" names in Spark's form by line
+         *         index, each made at its first use (the same strong lines go missing in spectrum
+         *         after spectrum; a shifted or offset catalogue keeps the indices, species and
+         *         labels); null for a window per spectrum
+         */
+        private UTF8String[] lineNames() {
+            if (fixed != null && lineNames == null) {
+                lineNames = new UTF8String[fixed.catalog().size()];
+            }
+            return lineNames;
         }
 
         /** @return the catalogue's species names in Spark's form, by species index */

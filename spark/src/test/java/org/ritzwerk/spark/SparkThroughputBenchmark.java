@@ -6,6 +6,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.TimeUnit;
+import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.RowFactory;
@@ -112,14 +113,27 @@ public class SparkThroughputBenchmark {
         List<String> species = List.of("H I", "He II");
         peakLists = Fixtures.peakLists(species, lists, peaks - 5, 5, 2026L);
         // Two partitions per core: each partition pays its setup (data context, catalogue) once per pass.
-        peakTable = Fixtures.peakListTable(spark, peakLists, 2 * cores).cache();
+        // The tables are made from distributed collections, not from driver-side lists: a table made
+        // from a list keeps every row inside its query plan, which Spark then analyses, compares with
+        // the cache and hashes on the driver at every pass (a serial cost growing with the table, seen
+        // on the driver thread in a profile), and holds a second, boxed copy of every array. The
+        // repartition ends the lineage at a shuffle: without it every task of every pass would carry
+        // its slice of the driver's collection (serialised on the driver, a serial cost again).
+        JavaSparkContext context = JavaSparkContext.fromSparkContext(spark.sparkContext());
+        List<Row> listRows = new ArrayList<>(lists);
+        for (Fixtures.PeakListData list : peakLists) {
+            listRows.add(list.row());
+        }
+        peakTable = spark.createDataFrame(context.parallelize(listRows, 2 * cores), Schemas.PEAK_LISTS)
+                .repartition(2 * cores).cache();
         peakTable.count();
         List<Row> sceneRows = new ArrayList<>(scenes);
         for (int k = 0; k < scenes; k++) {
             sceneRows.add(RowFactory.create("scene-" + k, new String[] {"H I"}, null, 6000.0 + 10 * k, null,
                     (k % 100 - 50) * 1e3, 8000.0, (long) k));
         }
-        sceneTable = spark.createDataFrame(sceneRows, Schemas.SCENES).repartition(2 * cores).cache();
+        sceneTable = spark.createDataFrame(context.parallelize(sceneRows, 2 * cores), Schemas.SCENES)
+                .repartition(2 * cores).cache();
         sceneTable.count();
         data = DataContext.discoverDefault();
         Candidates.Builder builder = Candidates.inWindow(360e-9, 710e-9);

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
@@ -13,6 +14,8 @@ import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.RowFactory;
 import org.apache.spark.sql.SparkSession;
+import org.apache.spark.sql.types.StructField;
+import org.apache.spark.sql.types.StructType;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.convert.SpectralArrays;
@@ -215,6 +218,44 @@ class SurveyIdentificationTest {
             }
         }
     }
+
+    @Test
+    void aRepeatedPeakOfOneSpectrumFailsTheJobNamingTheIdAndPeak() {
+        SparkSession spark = LocalSpark.session();
+        List<Row> perPeak = new ArrayList<>();
+        // The same indices in two spectra are fine; spectrum "b" gives peak 1 three times (once as
+        // an exact copy of another row).
+        for (String id : List.of("a", "b")) {
+            for (int i = 0; i < 3; i++) {
+                perPeak.add(RowFactory.create(id, i, 486.1 + i, 1e-3, null, null));
+            }
+        }
+        perPeak.add(RowFactory.create("b", 1, 600.0, 1e-3, null, null));
+        perPeak.add(RowFactory.create("b", 1, 487.1, 1e-3, null, null));
+        Dataset<Row> grouped = SurveyIdentification.peakLists(spark.createDataFrame(perPeak, Schemas.PEAK_ROWS));
+        String message = failure(() -> grouped.collectAsList());
+        assertEquals("row 'b', field 'peak': peak 1 is given by 3 rows of this spectrum; each peak of a spectrum"
+                + " needs its own index (the arrays are ordered by it)", message);
+        SurveyIdentification job = SurveyIdentification.of(IdentificationParameters.inWindow(SPECIES, List.of(), 360,
+                710));
+        message = failure(() -> job.identify(grouped).spectra().count());
+        assertTrue(message.startsWith("row 'b', field 'peak': peak 1 is given by 3 rows"), message);
+
+        List<Row> nullPeak = List.of(RowFactory.create("c", 0, 486.1, 1e-3, null, null),
+                RowFactory.create("c", null, 487.1, 1e-3, null, null));
+        message = failure(() -> SurveyIdentification.peakLists(spark.createDataFrame(nullPeak,
+                NULLABLE_PEAK_ROWS)).collectAsList());
+        assertTrue(message.startsWith("row 'c', field 'peak': is null"), message);
+
+        // Without repeats the same rows group (the check passes every spectrum).
+        List<Row> unique = perPeak.subList(0, 6);
+        assertEquals(2, SurveyIdentification.peakLists(spark.createDataFrame(unique, Schemas.PEAK_ROWS))
+                .collectAsList().size());
+    }
+
+    /** The per-peak schema with a nullable peak column, as a table read from files may have it. */
+    private static final StructType NULLABLE_PEAK_ROWS = new StructType(Arrays.stream(Schemas.PEAK_ROWS.fields())
+            .map(f -> new StructField(f.name(), f.dataType(), true, f.metadata())).toArray(StructField[]::new));
 
     private static List<Double> toList(double[] values) {
         List<Double> list = new ArrayList<>();

@@ -309,14 +309,10 @@ public final class Identification {
         int[] strongMatched = new int[count];
         double[] strongByChance = new double[count];
         double[] strongVariance = new double[count];
-        List<List<Double>> strongRates = new ArrayList<>();
-        for (int s = 0; s < count; s++) {
-            strongRates.add(new ArrayList<>());
-        }
-        double[] sorted = peaks.wavelengths().clone();
-        java.util.Arrays.sort(sorted);
-        double[] sigmas = peaks.sigmas().clone();
-        java.util.Arrays.sort(sigmas);
+        // Each species' strong-line rates in catalogue order (unboxed; lengths in strong[]).
+        double[][] strongRates = new double[count][];
+        double[] sorted = ascending(peaks.wavelengths());
+        double[] sigmas = ascending(peaks.sigmas());
         double typicalSigma = sigmas[sigmas.length / 2];
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
@@ -335,7 +331,12 @@ public final class Identification {
                 strongMatched[s] += used[j] ? 1 : 0;
                 strongByChance[s] += p;
                 strongVariance[s] += p * (1 - p);
-                strongRates.get(s).add(p);
+                if (strongRates[s] == null) {
+                    strongRates[s] = new double[16];
+                } else if (strong[s] > strongRates[s].length) {
+                    strongRates[s] = java.util.Arrays.copyOf(strongRates[s], 2 * strongRates[s].length);
+                }
+                strongRates[s][strong[s] - 1] = p;
             }
         }
         List<SpeciesPresence> presence = new ArrayList<>();
@@ -343,7 +344,7 @@ public final class Identification {
             int n = strong[s];
             int k = strongMatched[s];
             double mu = strongByChance[s];
-            double chance = n == 0 ? Double.NaN : chanceProbability(strongRates.get(s), k, mu, strongVariance[s]);
+            double chance = n == 0 ? Double.NaN : chanceProbability(strongRates[s], n, k, mu, strongVariance[s]);
             double share = Double.NaN;
             if (n > 0) {
                 share = n - mu > 1e-12 ? (k - mu - Z_99 * Math.sqrt(strongVariance[s])) / (n - mu) : 0;
@@ -353,6 +354,23 @@ public final class Identification {
                     chance, share));
         }
         return presence;
+    }
+
+    /**
+     * @return the values in ascending order: the array itself when it already is (it is then
+     *         only read), else a sorted copy
+     */
+    private static double[] ascending(double[] values) {
+        for (int i = 1; i < values.length; i++) {
+            // Double.compare orders as Arrays.sort does (-0.0 before 0.0), so a copy is sorted
+            // whenever the sort could change the array.
+            if (Double.compare(values[i - 1], values[i]) > 0) {
+                double[] sorted = values.clone();
+                java.util.Arrays.sort(sorted);
+                return sorted;
+            }
+        }
+        return values;
     }
 
     /**
@@ -407,10 +425,19 @@ public final class Identification {
      *         normal approximation with continuity correction for large problems
      */
     static double chanceProbability(List<Double> rates, int k, double mu, double variance) {
+        double[] values = new double[rates.size()];
+        for (int j = 0; j < values.length; j++) {
+            values[j] = rates.get(j);
+        }
+        return chanceProbability(values, values.length, k, mu, variance);
+    }
+
+    /** As {@link #chanceProbability(List, int, double, double)}, for the first {@code count} rates of an array. */
+    static double chanceProbability(double[] rates, int count, int k, double mu, double variance) {
         if (k == 0) {
             return 1;
         }
-        if ((long) rates.size() * k > EXACT_TAIL_WORK) {
+        if ((long) count * k > EXACT_TAIL_WORK) {
             if (variance <= 0) {
                 return k - 0.5 <= mu ? 1 : 0;
             }
@@ -420,7 +447,8 @@ public final class Identification {
         // f[c] = P(c matched so far) for c < k; f[k] = P(at least k).
         double[] f = new double[k + 1];
         f[0] = 1;
-        for (double p : rates) {
+        for (int j = 0; j < count; j++) {
+            double p = rates[j];
             f[k] += f[k - 1] * p;
             for (int c = k - 1; c >= 1; c--) {
                 f[c] = f[c] * (1 - p) + f[c - 1] * p;

@@ -50,18 +50,38 @@ public final class PeakList {
         SpectralArrays.convert(positions, unit, medium, Unit.METRE, Medium.vacuum(), wavelength);
         double[] sigma = new double[n];
         if (sigmas != null) {
+            // First order: the uncertainty scales with |d lambda / d x| at the peak, from the
+            // positions x -+ dx. They are converted in one call (the conversion is element by
+            // element, so each value is the one a call per peak gives); should that call fail,
+            // each peak is converted on its own, in order, so that the first bad peak is named.
+            double[] pairs = new double[2 * n];
+            for (int i = 0; i < n; i++) {
+                double x = positions[i];
+                double dx = x * 1e-7;
+                pairs[2 * i] = x - dx;
+                pairs[2 * i + 1] = x + dx;
+            }
+            double[] converted = new double[2 * n];
+            try {
+                SpectralArrays.convert(pairs, unit, medium, Unit.METRE, Medium.vacuum(), converted);
+            } catch (RuntimeException e) {
+                converted = null;
+            }
             for (int i = 0; i < n; i++) {
                 double u = sigmas[i];
                 if (!(u >= 0) || Double.isInfinite(u)) {
                     throw new IllegalArgumentException("peak " + i + ": uncertainty must be finite and >= 0, got " + u);
                 }
-                // First order: the uncertainty scales with |d lambda / d x| at the peak.
                 double x = positions[i];
                 double dx = x * 1e-7;
-                double[] pair = {x - dx, x + dx};
-                double[] out = new double[2];
-                SpectralArrays.convert(pair, unit, medium, Unit.METRE, Medium.vacuum(), out);
-                sigma[i] = Math.abs(out[1] - out[0]) / (2 * dx) * u;
+                double[] out = converted == null ? new double[2] : null;
+                if (out != null) {
+                    SpectralArrays.convert(new double[] {x - dx, x + dx}, unit, medium, Unit.METRE, Medium.vacuum(),
+                            out);
+                }
+                double low = out == null ? converted[2 * i] : out[0];
+                double high = out == null ? converted[2 * i + 1] : out[1];
+                sigma[i] = Math.abs(high - low) / (2 * dx) * u;
             }
         }
         double[] intensity = new double[n];
