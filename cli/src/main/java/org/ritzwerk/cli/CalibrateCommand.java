@@ -338,7 +338,7 @@ final class CalibrateCommand implements Callable<Integer> {
         for (int i = 0; i < solution.size(); i++) {
             w.printf(Locale.ROOT, "%8.3f %8.3f %-28s %14.5f %11.5f %9.4f %s%n", solution.pixel(i),
                     match.pixelSigma(i), calibration.pairLabel(i), solution.wavelengthAt(solution.pixel(i)),
-                    solution.residualNm(i), solution.residualPixels(i), solution.isRejected(i) ? "rejected" : "");
+                    solution.residualNm(i), solution.residualPixels(i), pairNote(solution, i));
         }
         LampMatch saturatedPairs = calibration.saturatedPairs();
         for (int i = 0; i < saturatedPairs.size(); i++) {
@@ -359,6 +359,15 @@ final class CalibrateCommand implements Callable<Integer> {
                     + " and %d paired one(s) were left out of the fit.%n", saturated, saturatedPairs.size());
         }
         w.flush();
+    }
+
+    /** "rejected" for a pair the fit clipped, "blend" for one widened as an unresolved blend, or both. */
+    private static String pairNote(DispersionSolution solution, int i) {
+        String blend = solution.pairFlag(i);
+        if (!solution.isRejected(i)) {
+            return blend;
+        }
+        return blend.isEmpty() ? "rejected" : "rejected, " + blend;
     }
 
     private static List<CalibrationRecord.SaturatedLine> saturatedLines(Calibration calibration) {
@@ -387,7 +396,7 @@ final class CalibrateCommand implements Callable<Integer> {
         for (int i = 0; i < solution.size(); i++) {
             table.add(solution.pixel(i), match.pixelSigma(i), calibration.pairLabel(i), solution.wavelength(i),
                     solution.wavelengthAt(solution.pixel(i)), solution.residualNm(i), solution.residualPixels(i),
-                    solution.isRejected(i) ? "false" : "true", solution.isRejected(i) ? "rejected" : "");
+                    solution.isRejected(i) ? "false" : "true", pairNote(solution, i));
         }
         LampMatch saturatedPairs = calibration.saturatedPairs();
         for (int i = 0; i < saturatedPairs.size(); i++) {

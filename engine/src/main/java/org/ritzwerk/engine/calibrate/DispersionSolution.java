@@ -175,7 +175,7 @@ public final class DispersionSolution {
      *         unresolved blend, whose uncertainty was widened), "" when none
      */
     public String pairFlag(int i) {
-        java.util.Objects.checkIndex(i, size());
+        Objects.checkIndex(i, size());
         return pairFlags == null ? "" : pairFlags[i];
     }
 
