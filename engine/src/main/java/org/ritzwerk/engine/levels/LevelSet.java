@@ -30,7 +30,13 @@ public final class LevelSet {
      */
     public record Omission(Species species, int count, String first, String reason) {
 
-        /** @throws IllegalArgumentException when count is below 1 */
+        /**
+         * @param species the species
+         * @param count   how many, at least 1
+         * @param first   the lowest of them
+         * @param reason  why they are not given
+         * @throws IllegalArgumentException when count is below 1
+         */
         public Omission {
             Objects.requireNonNull(species, "species");
             Objects.requireNonNull(first, "first");
@@ -100,42 +106,64 @@ public final class LevelSet {
         return label.length;
     }
 
-    /** @return the species of level i */
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return the species of level i
+     */
     public Species species(int i) {
         return species[i];
     }
 
-    /** @return the label of level i, e.g. {@code 2p3/2}, {@code 5p 2P3/2} or a level list's own */
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return the label of level i, e.g. {@code 2p3/2}, {@code 5p 2P3/2} or a level list's own
+     */
     public String label(int i) {
         return label[i];
     }
 
-    /** @return the principal quantum number, when the source gives one */
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return the principal quantum number, when the source gives one
+     */
     public OptionalInt n(int i) {
         return optional(n[i]);
     }
 
-    /** @return the orbital quantum number, when the source gives one */
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return the orbital quantum number, when the source gives one
+     */
     public OptionalInt l(int i) {
         return optional(l[i]);
     }
 
-    /** @return 2 J, when the source gives J */
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return 2 J, when the source gives J
+     */
     public OptionalInt twoJ(int i) {
         return optional(twoJ[i]);
     }
 
-    /** @return 2 F for a hyperfine level, else empty */
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return 2 F for a hyperfine level, else empty
+     */
     public OptionalInt twoF(int i) {
         return optional(twoF[i]);
     }
 
-    /** @return the statistical weight (2J + 1, or 2F + 1 for a hyperfine level), when known */
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return the statistical weight (2J + 1, or 2F + 1 for a hyperfine level), when known
+     */
     public OptionalInt statisticalWeight(int i) {
         return optional(weight[i]);
     }
 
     /**
+     * @param i a level, 0 to size() - 1
      * @return the energy in cm^-1 above the species' ground level (alkali atoms: above the ground
      *         level's hyperfine-free centroid; a level list: as listed)
      */
@@ -143,12 +171,16 @@ public final class LevelSet {
         return energy[i];
     }
 
-    /** @return the standard uncertainty of the energy in cm^-1, when the source gives one */
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return the standard uncertainty of the energy in cm^-1, when the source gives one
+     */
     public OptionalDouble energyUncertaintyPerCm(int i) {
         return Double.isNaN(energySigma[i]) ? OptionalDouble.empty() : OptionalDouble.of(energySigma[i]);
     }
 
     /**
+     * @param i a level, 0 to size() - 1
      * @return where the energy comes from: the tier of a one-electron ion ({@code qed}), the origin of
      *         an alkali level ({@code measured}, {@code quantum-defect}, ...; {@code , hyperfine A, B}
      *         added for an F level), or {@code level list} and the list's id
@@ -158,6 +190,7 @@ public final class LevelSet {
     }
 
     /**
+     * @param i a level, 0 to size() - 1
      * @return the radiative lifetime in s from E1 decays, when asked for and finite (empty for a
      *         ground level, a level with no E1 decay, and the levels of a level list)
      */
@@ -166,6 +199,7 @@ public final class LevelSet {
     }
 
     /**
+     * @param i a level, 0 to size() - 1
      * @return the lifetime in s with black-body stimulated decays and excitation added, when asked
      *         for with a temperature (alkali atoms only)
      */
