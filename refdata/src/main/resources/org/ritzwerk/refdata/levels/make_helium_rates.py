@@ -125,7 +125,14 @@ def read_levels():
 def whittaker(n_star, l, r):
     z = 2 * r / n_star
     mu = l + 0.5
-    return np.exp(-z / 2) * z ** (mu + 0.5) * hyperu(mu - n_star + 0.5, 1 + 2 * mu, z)
+    u = hyperu(mu - n_star + 0.5, 1 + 2 * mu, z)
+    # scipy's hyperu gives NaN at scattered points for n* near 10; there mpmath's hyperu (Debian
+    # python3-mpmath) stands in (none of the levels n <= 4 needs it)
+    bad = ~np.isfinite(u) & (z > 0)
+    if bad.any():
+        u = np.array(u)
+        u[bad] = [float(mpmath.hyperu(mu - n_star + 0.5, 1 + 2 * mu, x)) for x in z[bad]]
+    return np.exp(-z / 2) * z ** (mu + 0.5) * u
 
 
 GRID = np.linspace(0, 1, 40001) ** 2 * 200.0
@@ -298,6 +305,7 @@ def main():
         "species,position,einstein_a,lower,upper,note",
     ]
     assert not any("," in note for *_, note in rows)
+    assert all(math.isfinite(a) and a > 0 for _, _, _, a, _ in rows)
     body = ["He I,%.4f,%.4e,%s,%s,%s" % (sigma, a, lo, up, note) for sigma, lo, up, a, note in rows]
     with open("lines-he-i.csv", "w") as f:
         f.write("\n".join(header + body) + "\n")
