@@ -12,6 +12,8 @@ import org.apache.commons.math4.legacy.fitting.leastsquares.LevenbergMarquardtOp
 import org.apache.commons.math4.legacy.fitting.leastsquares.MultivariateJacobianFunction;
 import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
 import org.apache.commons.math4.legacy.linear.ArrayRealVector;
+import org.apache.commons.math4.legacy.linear.RealMatrix;
+import org.apache.commons.math4.legacy.linear.SingularValueDecomposition;
 import org.apache.commons.math4.legacy.linear.SingularMatrixException;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 
@@ -353,12 +355,43 @@ public final class SeriesFitter {
                         return null;
                     }
                 }
-                double[][] covariance = optimum.getCovariances(1e-14).getData();
+                double[][] covariance = covariance(optimum.getJacobian());
+                if (covariance == null) {
+                    return null;
+                }
                 double chi = optimum.getRMS() * optimum.getRMS() * points;
                 return new Solution(terms.clone(), q, covariance, chi);
             } catch (MathIllegalStateException | SingularMatrixException | ArithmeticException e) {
                 return null;
             }
+        }
+
+        /**
+         * The covariance {@code (J^T W J)^-1} from the singular value decomposition of the weighted
+         * Jacobian, {@code V S^-2 V^T}: forming {@code J^T W J} first squares the condition number, which
+         * data of very different uncertainties (a level known to 5e-8 cm^-1 beside a limit known to 1e-3)
+         * make large enough to cost digits. Null when J is singular (a singular value below 1e-14 of the
+         * largest).
+         */
+        static double[][] covariance(RealMatrix jacobian) {
+            SingularValueDecomposition svd = new SingularValueDecomposition(jacobian);
+            double[] s = svd.getSingularValues();
+            int p = s.length;
+            if (p == 0 || !(s[p - 1] > 1e-14 * s[0])) {
+                return null;
+            }
+            double[][] v = svd.getV().getData();
+            double[][] c = new double[p][p];
+            for (int a = 0; a < p; a++) {
+                for (int b = 0; b < p; b++) {
+                    double sum = 0;
+                    for (int k = 0; k < p; k++) {
+                        sum += v[a][k] * v[b][k] / (s[k] * s[k]);
+                    }
+                    c[a][b] = sum;
+                }
+            }
+            return c;
         }
 
         /** Fills values (from the offset) and the Jacobian; weighted by 1 / u when asked. */

@@ -148,4 +148,36 @@ class SeriesFitterTest {
         assertEquals(0.95, within[0] / (double) trials, 0.04, "limit coverage");
         assertEquals(0.95, within[1] / (double) trials, 0.04, "d0 coverage");
     }
+    @Test
+    void theCovarianceKeepsItsDigitsWhenUncertaintiesDifferByOrders() {
+        // members known to 5e-8 and 5e-5 cm^-1 beside a limit known to 1e-3 (the He I case): the predicted
+        // member's uncertainty equals the propagation of each datum's uncertainty through the
+        // interpolation, found here by refitting with each datum moved (finite differences)
+        List<Double> truth = List.of(0.2966, 0.038, 0.008);
+        double[] energy = new double[5];
+        double[] sigma = {0, 0, 5e-8, 5e-5, 5e-5};
+        for (int n = 2; n <= 4; n++) {
+            energy[n] = AlkaliAtom.rydbergRitzEnergy(LIMIT, R, truth, n);
+        }
+        double u = fitted(energy, sigma, LIMIT).predict(0, 6).uncertaintyPerCm();
+        double base = fitted(energy, sigma, LIMIT).predict(0, 6).energyPerCm();
+        double variance = 0;
+        for (int n = 2; n <= 4; n++) {
+            double[] moved = energy.clone();
+            moved[n] += 1e-4;
+            double slope = (fitted(moved, sigma, LIMIT).predict(0, 6).energyPerCm() - base) / 1e-4;
+            variance += slope * slope * sigma[n] * sigma[n];
+        }
+        double slope = (fitted(energy, sigma, LIMIT + 1e-4).predict(0, 6).energyPerCm() - base) / 1e-4;
+        variance += slope * slope * 1e-6;
+        assertEquals(Math.sqrt(variance), u, 1e-3 * u);
+    }
+
+    private static SeriesFit fitted(double[] energy, double[] sigma, double limit) {
+        RydbergSeries.Builder b = RydbergSeries.builder("3S");
+        for (int n = 2; n <= 4; n++) {
+            b.add(n, energy[n], sigma[n]);
+        }
+        return SeriesFitter.defaults().withTerms(3).withLimit(limit, 1e-3).fit(R, List.of(b.build()));
+    }
 }
