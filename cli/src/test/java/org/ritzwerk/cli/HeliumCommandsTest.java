@@ -110,7 +110,8 @@ class HeliumCommandsTest {
                 assertEquals("H I", row.get("species").asString(), out[i]);
             }
         }
-        // 396.5, 492.2, 501.6, 504.8, 667.8 nm
-        assertEquals(5, helium, String.join("\n", out));
+        // 396.5, 492.2, 501.6, 504.8, 667.8 nm, and from the predicted levels n = 5-8 the 2p 1P - nd 1D
+        // lines 438.8, 414.4, 401.0, 392.8 nm (air)
+        assertEquals(9, helium, String.join("\n", out));
     }
 }

@@ -12,6 +12,8 @@ import org.apache.commons.math4.legacy.fitting.leastsquares.LevenbergMarquardtOp
 import org.apache.commons.math4.legacy.fitting.leastsquares.MultivariateJacobianFunction;
 import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
 import org.apache.commons.math4.legacy.linear.ArrayRealVector;
+import org.apache.commons.math4.legacy.linear.RealMatrix;
+import org.apache.commons.math4.legacy.linear.SingularValueDecomposition;
 import org.apache.commons.math4.legacy.linear.SingularMatrixException;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 
@@ -32,24 +34,34 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
  * errors of known size, -2 ln L is chi^2 up to a constant), until no added term lowers it. Every
  * model tried is in the result ({@link SeriesFit#candidates()}).
  *
+ * <p><b>Known limit.</b> A limit known from elsewhere (a published ionization energy with its
+ * standard uncertainty, {@link #withLimit}) enters the fit as one more datum, {@code (E_limit - L) / u_L},
+ * beside the members; it counts as a datum in the information criterion and the degrees of freedom.
+ *
  * <p><b>Uncertainties.</b> The covariance is {@code (J^T W J)^-1} at the optimum, from the members'
  * stated uncertainties (not scaled by chi^2 / dof; the result gives both so the caller can).
  * Predicted members carry {@code u(E) = sqrt(g^T C g)}, g the gradient of E(n) in the parameters.
+ * With the number of terms fixed ({@link #withTerms}), as many data as parameters are accepted: the
+ * fit then interpolates (chi^2 = 0, no degrees of freedom), and the covariance carries the data's
+ * uncertainties alone, nothing of the formula's truncation (the caller must add that).
  *
- * <p>Refused with a {@link RitzException}: fewer members than parameters plus one
- * ({@link RitzException#TOO_FEW}), a fit that does not converge ({@link RitzException#NO_CONVERGENCE}).
- * Immutable and thread-safe.
+ * <p>Refused with a {@link RitzException}: fewer data (members, and the known limit where given) than
+ * parameters plus one, or than parameters with fixed terms ({@link RitzException#TOO_FEW}), a fit
+ * that does not converge ({@link RitzException#NO_CONVERGENCE}). Immutable and thread-safe.
  */
 public final class SeriesFitter {
 
-    private static final SeriesFitter DEFAULTS = new SeriesFitter(3, null);
+    private static final SeriesFitter DEFAULTS = new SeriesFitter(3, null, null);
 
     private final int maxTerms;
     private final int[] fixedTerms;
+    /** The known limit and its standard uncertainty, cm^-1, or null. */
+    private final double[] knownLimit;
 
-    private SeriesFitter(int maxTerms, int[] fixedTerms) {
+    private SeriesFitter(int maxTerms, int[] fixedTerms, double[] knownLimit) {
         this.maxTerms = maxTerms;
         this.fixedTerms = fixedTerms;
+        this.knownLimit = knownLimit;
     }
 
     /** @return up to 3 terms per series, chosen by the information criterion */
@@ -65,7 +77,7 @@ public final class SeriesFitter {
         if (terms < 1 || terms > 6) {
             throw new IllegalArgumentException("the number of defect terms must be 1 to 6, got " + terms);
         }
-        return new SeriesFitter(terms, null);
+        return new SeriesFitter(terms, null, knownLimit);
     }
 
     /**
@@ -78,7 +90,25 @@ public final class SeriesFitter {
                 throw new IllegalArgumentException("the number of defect terms must be 1 to 6, got " + t);
             }
         }
-        return new SeriesFitter(maxTerms, terms.clone());
+        return new SeriesFitter(maxTerms, terms.clone(), knownLimit);
+    }
+
+    /**
+     * @param limitPerCm       a known series limit above the ground level (e.g. a published ionization
+     *                         energy), cm^-1, finite, positive
+     * @param uncertaintyPerCm its standard uncertainty, cm^-1, finite, positive
+     * @return this fitter with the limit as one more datum of the fit
+     */
+    public SeriesFitter withLimit(double limitPerCm, double uncertaintyPerCm) {
+        if (!(limitPerCm > 0) || Double.isInfinite(limitPerCm)) {
+            throw new IllegalArgumentException("the known limit must be finite and positive cm-1, got " + limitPerCm);
+        }
+        if (!(uncertaintyPerCm > 0) || Double.isInfinite(uncertaintyPerCm)) {
+            throw new IllegalArgumentException("the known limit's uncertainty must be finite and positive cm-1, got "
+                    + uncertaintyPerCm);
+        }
+        return new SeriesFitter(maxTerms, fixedTerms == null ? null : fixedTerms.clone(),
+                new double[] {limitPerCm, uncertaintyPerCm});
     }
 
     /**
@@ -98,13 +128,16 @@ public final class SeriesFitter {
         if (fixedTerms != null && fixedTerms.length != series.size()) {
             throw new IllegalArgumentException(fixedTerms.length + " term counts for " + series.size() + " series");
         }
-        int total = series.stream().mapToInt(RydbergSeries::size).sum();
-        Model model = new Model(rydbergPerCm, series);
+        int members = series.stream().mapToInt(RydbergSeries::size).sum();
+        int total = members + (knownLimit == null ? 0 : 1);
+        Model model = new Model(rydbergPerCm, series, knownLimit);
         int[] terms = fixedTerms != null ? fixedTerms.clone() : filled(series.size(), 1);
         int p = 1 + Arrays.stream(terms).sum();
-        if (total < p + 1) {
-            throw new RitzException(RitzException.TOO_FEW, "a fit with " + p + " parameters needs at least " + (p + 1)
-                    + " members; the series have " + total);
+        int needed = fixedTerms != null ? p : p + 1;
+        if (total < needed) {
+            throw new RitzException(RitzException.TOO_FEW, "a fit with " + p + " parameters needs at least " + needed
+                    + (knownLimit == null ? " members; the series have " + members
+                    : " data; the series have " + members + " members and the known limit is one more"));
         }
         List<SeriesFit.Candidate> tried = new ArrayList<>();
         double[] start = model.start(terms);
@@ -154,7 +187,8 @@ public final class SeriesFitter {
     @Override
     public String toString() {
         return "SeriesFitter[" + (fixedTerms == null ? "up to " + maxTerms + " terms by BIC"
-                : "terms " + Arrays.toString(fixedTerms)) + "]";
+                : "terms " + Arrays.toString(fixedTerms))
+                + (knownLimit == null ? "" : ", known limit " + knownLimit[0] + " +- " + knownLimit[1] + " cm-1") + "]";
     }
 
     /** One converged fit. */
@@ -189,10 +223,13 @@ public final class SeriesFitter {
         final double rydberg;
         final List<RydbergSeries> series;
         final double offset;
+        /** The known limit and its uncertainty, cm^-1, or null. */
+        final double[] knownLimit;
 
-        Model(double rydberg, List<RydbergSeries> series) {
+        Model(double rydberg, List<RydbergSeries> series, double[] knownLimit) {
             this.rydberg = rydberg;
             this.series = List.copyOf(series);
+            this.knownLimit = knownLimit == null ? null : knownLimit.clone();
             double high = 0;
             for (RydbergSeries s : series) {
                 for (int i = 0; i < s.size(); i++) {
@@ -270,7 +307,7 @@ public final class SeriesFitter {
                 sumW += bestW;
                 sumL += bestW * bestL;
             }
-            q[0] = sumL / sumW;
+            q[0] = knownLimit != null ? knownLimit[0] - offset : sumL / sumW;
             return q;
         }
 
@@ -289,7 +326,7 @@ public final class SeriesFitter {
         }
 
         Solution solve(int[] terms, double[] start) {
-            int points = series.stream().mapToInt(RydbergSeries::size).sum();
+            int points = series.stream().mapToInt(RydbergSeries::size).sum() + (knownLimit == null ? 0 : 1);
             int p = start.length;
             double[] target = new double[points];
             int row = 0;
@@ -297,6 +334,9 @@ public final class SeriesFitter {
                 for (int i = 0; i < s.size(); i++) {
                     target[row++] = (s.energyPerCm(i) - offset) / s.uncertaintyPerCm(i);
                 }
+            }
+            if (knownLimit != null) {
+                target[row] = (knownLimit[0] - offset) / knownLimit[1];
             }
             MultivariateJacobianFunction f = point -> {
                 double[] q = point.toArray();
@@ -315,12 +355,43 @@ public final class SeriesFitter {
                         return null;
                     }
                 }
-                double[][] covariance = optimum.getCovariances(1e-14).getData();
+                double[][] covariance = covariance(optimum.getJacobian());
+                if (covariance == null) {
+                    return null;
+                }
                 double chi = optimum.getRMS() * optimum.getRMS() * points;
                 return new Solution(terms.clone(), q, covariance, chi);
             } catch (MathIllegalStateException | SingularMatrixException | ArithmeticException e) {
                 return null;
             }
+        }
+
+        /**
+         * The covariance {@code (J^T W J)^-1} from the singular value decomposition of the weighted
+         * Jacobian, {@code V S^-2 V^T}: forming {@code J^T W J} first squares the condition number, which
+         * data of very different uncertainties (a level known to 5e-8 cm^-1 beside a limit known to 1e-3)
+         * make large enough to cost digits. Null when J is singular (a singular value below 1e-14 of the
+         * largest).
+         */
+        static double[][] covariance(RealMatrix jacobian) {
+            SingularValueDecomposition svd = new SingularValueDecomposition(jacobian);
+            double[] s = svd.getSingularValues();
+            int p = s.length;
+            if (p == 0 || !(s[p - 1] > 1e-14 * s[0])) {
+                return null;
+            }
+            double[][] v = svd.getV().getData();
+            double[][] c = new double[p][p];
+            for (int a = 0; a < p; a++) {
+                for (int b = 0; b < p; b++) {
+                    double sum = 0;
+                    for (int k = 0; k < p; k++) {
+                        sum += v[a][k] * v[b][k] / (s[k] * s[k]);
+                    }
+                    c[a][b] = sum;
+                }
+            }
+            return c;
         }
 
         /** Fills values (from the offset) and the Jacobian; weighted by 1 / u when asked. */
@@ -341,6 +412,11 @@ public final class SeriesFitter {
                     row++;
                 }
                 at += terms[s];
+            }
+            if (knownLimit != null) {
+                double w = weighted ? 1 / knownLimit[1] : 1;
+                value[row] = q[0] * w;
+                jacobian[row][0] = w;
             }
         }
 

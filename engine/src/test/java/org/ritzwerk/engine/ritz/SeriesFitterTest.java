@@ -93,4 +93,91 @@ class SeriesFitterTest {
         assertThrows(RitzException.class, () -> RydbergSeries.builder("x").add(0, 1, 1));
         assertThrows(RitzException.class, () -> RydbergSeries.builder("x").add(5, 1, 0));
     }
+    @Test
+    void aKnownLimitIsOneMoreDatumAndFixedTermsMayInterpolate() {
+        // three members without noise and the limit as a datum: three terms and the limit interpolate
+        // them (no degrees of freedom), and members beyond come back exactly
+        List<Double> truth = List.of(0.2966, 0.038, 0.008);
+        RydbergSeries.Builder b = RydbergSeries.builder("3S");
+        for (int n = 2; n <= 4; n++) {
+            b.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT, R, truth, n), 5e-5);
+        }
+        RydbergSeries three = b.build();
+        SeriesFit fit = SeriesFitter.defaults().withTerms(3).withLimit(LIMIT, 1e-3).fit(R, List.of(three));
+        assertEquals(0, fit.degreesOfFreedom());
+        assertEquals(0.0, fit.chiSquare(), 1e-12);
+        assertEquals(LIMIT, fit.limitPerCm(), 1e-7);
+        assertEquals(1e-3, fit.limitUncertaintyPerCm(), 1e-6);
+        for (int n = 5; n <= 10; n++) {
+            SeriesFit.Member m = fit.predict(0, n);
+            assertEquals(AlkaliAtom.rydbergRitzEnergy(LIMIT, R, truth, n), m.energyPerCm(), 1e-6, "n = " + n);
+            // the covariance carries the data's uncertainties: between the members' and the limit's
+            assertTrue(m.uncertaintyPerCm() > 1e-5 && m.uncertaintyPerCm() < 2e-3, "n = " + n + ": " + m);
+        }
+        // the limit moved by its uncertainty moves the interpolated fit's limit with it
+        SeriesFit moved = SeriesFitter.defaults().withTerms(3).withLimit(LIMIT + 1e-3, 1e-3).fit(R, List.of(three));
+        assertEquals(LIMIT + 1e-3, moved.limitPerCm(), 1e-7);
+        // without the known limit the same three members are too few for four parameters
+        RitzException e = assertThrows(RitzException.class,
+                () -> SeriesFitter.defaults().withTerms(3).fit(R, List.of(three)));
+        assertEquals(RitzException.TOO_FEW, e.code());
+        // with the number of terms chosen by the criterion a degree of freedom is still required
+        RitzException bic = assertThrows(RitzException.class, () -> SeriesFitter.defaults().withLimit(LIMIT, 1e-3)
+                .fit(R, List.of(RydbergSeries.builder("x").add(3, 183236.79, 1e-4).build())));
+        assertTrue(bic.getMessage().contains("known limit"), bic.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> SeriesFitter.defaults().withLimit(LIMIT, 0));
+        assertThrows(IllegalArgumentException.class, () -> SeriesFitter.defaults().withLimit(Double.NaN, 1));
+    }
+
+    @Test
+    void aKnownLimitWithNoisyMembersKeepsCoverage() {
+        // members n = 5..20 with noise and a limit known to 0.01 cm^-1: the fitted limit and d0 lie within
+        // 1.96 of their uncertainties at the normal rate
+        Random r = new Random(2006);
+        List<Double> truth = List.of(0.1397, 0.028);
+        int trials = 300;
+        int[] within = new int[2];
+        for (int t = 0; t < trials; t++) {
+            double known = LIMIT + 0.01 * r.nextGaussian();
+            SeriesFit fit = SeriesFitter.defaults().withTerms(2).withLimit(known, 0.01)
+                    .fit(R, List.of(synthetic("1S", r, truth, 5, 20, 0.02)));
+            within[0] += Math.abs(fit.limitPerCm() - LIMIT) <= 1.96 * fit.limitUncertaintyPerCm() ? 1 : 0;
+            within[1] += Math.abs(fit.defects(0)[0] - truth.get(0)) <= 1.96 * fit.defectUncertainties(0)[0] ? 1 : 0;
+            assertEquals(16 + 1 - 3, fit.degreesOfFreedom());
+        }
+        assertEquals(0.95, within[0] / (double) trials, 0.04, "limit coverage");
+        assertEquals(0.95, within[1] / (double) trials, 0.04, "d0 coverage");
+    }
+    @Test
+    void theCovarianceKeepsItsDigitsWhenUncertaintiesDifferByOrders() {
+        // members known to 5e-8 and 5e-5 cm^-1 beside a limit known to 1e-3 (the He I case): the predicted
+        // member's uncertainty equals the propagation of each datum's uncertainty through the
+        // interpolation, found here by refitting with each datum moved (finite differences)
+        List<Double> truth = List.of(0.2966, 0.038, 0.008);
+        double[] energy = new double[5];
+        double[] sigma = {0, 0, 5e-8, 5e-5, 5e-5};
+        for (int n = 2; n <= 4; n++) {
+            energy[n] = AlkaliAtom.rydbergRitzEnergy(LIMIT, R, truth, n);
+        }
+        double u = fitted(energy, sigma, LIMIT).predict(0, 6).uncertaintyPerCm();
+        double base = fitted(energy, sigma, LIMIT).predict(0, 6).energyPerCm();
+        double variance = 0;
+        for (int n = 2; n <= 4; n++) {
+            double[] moved = energy.clone();
+            moved[n] += 1e-4;
+            double slope = (fitted(moved, sigma, LIMIT).predict(0, 6).energyPerCm() - base) / 1e-4;
+            variance += slope * slope * sigma[n] * sigma[n];
+        }
+        double slope = (fitted(energy, sigma, LIMIT + 1e-4).predict(0, 6).energyPerCm() - base) / 1e-4;
+        variance += slope * slope * 1e-6;
+        assertEquals(Math.sqrt(variance), u, 1e-3 * u);
+    }
+
+    private static SeriesFit fitted(double[] energy, double[] sigma, double limit) {
+        RydbergSeries.Builder b = RydbergSeries.builder("3S");
+        for (int n = 2; n <= 4; n++) {
+            b.add(n, energy[n], sigma[n]);
+        }
+        return SeriesFitter.defaults().withTerms(3).withLimit(limit, 1e-3).fit(R, List.of(b.build()));
+    }
 }

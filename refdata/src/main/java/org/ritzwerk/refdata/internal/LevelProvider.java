@@ -19,7 +19,8 @@ import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * Built-in level lists of species beyond one-electron ions and alkali atoms, whose lines come by
- * the Ritz combination principle: He I ({@code levels-he-i}, n up to 4, singlets and triplets) and
+ * the Ritz combination principle: He I ({@code levels-he-i}, n up to 10, singlets and triplets; n = 5
+ * to 10 predicted by {@code make_helium_levels.py}'s Rydberg-Ritz fit of the recalled n = 2-4) and
  * Sr-88 I ({@code levels-sr-i}: five Rydberg series n = 20 to 60 computed by
  * {@code make_strontium_levels.py} from the published Rydberg-Ritz parameters in
  * {@code rydberg-ritz-sr-88.csv} and the published Sr-88 limit, with 5s5p 3P1 and 1P1). Each row is
