@@ -67,8 +67,12 @@ class RitzUserGuideTest {
         SeriesFit fit = SeriesFitter.defaults().fit(109736.623, List.of(series));   // R_M of the isotope, cm-1
         double limit = fit.limitPerCm();                                    // fit.defects(0), fit.covariance()
         SeriesFit.Member n60 = fit.predict(0, 60);                          // energy with its uncertainty
+        SeriesFit known = SeriesFitter.defaults().withLimit(33690.80, 0.01).fit(109736.623, List.of(series));
         // --- end ---
         assertEquals(33690.804, limit, 0.01);
+        assertEquals(33690.80, known.limitPerCm(), 0.01);
+        assertTrue(known.limitUncertaintyPerCm() <= fit.limitUncertaintyPerCm() + 1e-12,
+                "a known limit can only narrow the fitted one");
         assertTrue(n60.uncertaintyPerCm() > 0);
     }
 }
