@@ -55,6 +55,12 @@ final class SeriesCommand implements Callable<Integer> {
                     + "${DEFAULT-VALUE}).")
     int maxTerms;
 
+    @Option(names = "--limit", paramLabel = "CM,U", split = ",",
+            description = "A known series limit (e.g. a published ionisation energy) and its standard uncertainty, "
+                    + "cm-1 above the ground level, taken as one more datum of the fit; with --terms the fit may "
+                    + "then pass exactly through as many data as it has parameters.")
+    List<Double> limit = new ArrayList<>();
+
     @Option(names = "--predict", paramLabel = "N[,N...]", split = ",",
             description = "Also give these members of every series (energy, uncertainty, defect).")
     List<Integer> predict = new ArrayList<>();
@@ -84,6 +90,11 @@ final class SeriesCommand implements Callable<Integer> {
             if (k < 1 || k > 6) {
                 throw new OptionException("--terms: each number of terms must be 1 to 6, got " + k);
             }
+        }
+        if (!limit.isEmpty() && (limit.size() != 2 || !(limit.get(0) > 0) || limit.get(0).isInfinite()
+                || !(limit.get(1) > 0) || limit.get(1).isInfinite())) {
+            throw new OptionException("--limit takes two numbers, the limit and its standard uncertainty in cm-1, "
+                    + "both finite and above 0, e.g. --limit 33690.80,0.01; got " + limitText());
         }
         for (int n : predict) {
             if (n < 1 || n > 10000) {
@@ -118,6 +129,9 @@ final class SeriesCommand implements Callable<Integer> {
         double rydberg = SeriesFiles.rydbergPerCm(data.context(), contents.species());
         SeriesFitter fitter = terms.isEmpty() ? SeriesFitter.defaults().withMaxTerms(maxTerms)
                 : SeriesFitter.defaults().withTerms(terms.stream().mapToInt(Integer::intValue).toArray());
+        if (!limit.isEmpty()) {
+            fitter = fitter.withLimit(limit.get(0), limit.get(1));
+        }
         SeriesFit fit;
         try {
             fit = fitter.fit(rydberg, series);
@@ -147,6 +161,10 @@ final class SeriesCommand implements Callable<Integer> {
         return 0;
     }
 
+    private String limitText() {
+        return String.join(",", limit.stream().map(String::valueOf).toList());
+    }
+
     private void print(SeriesFit fit, SeriesFiles.Contents contents) {
         PrintWriter out = spec.commandLine().getOut();
         boolean text = format == Table.Format.text;
@@ -155,6 +173,10 @@ final class SeriesCommand implements Callable<Integer> {
                     + "of freedom%n%n", contents.species().notation(), fit.series().size(),
                     fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
                     fit.degreesOfFreedom());
+            if (!limit.isEmpty()) {
+                out.printf(java.util.Locale.ROOT, "Known limit %s +- %s cm-1 taken as a datum%n%n", limit.get(0),
+                        limit.get(1));
+            }
         }
         Table parameters = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("parameter", "parameter"),
                 Table.Column.number("value", "value", "%.11g"), Table.Column.number("uncertainty", "uncertainty", "%.3g"),

@@ -88,6 +88,43 @@ class SeriesCommandTest {
         assertEquals(before, Files.readString(file));
     }
 
+    /**
+     * --limit: a known limit is one more datum. One given 0.001 cm-1 above the members' own limit
+     * with 1e-5 cm-1 uncertainty pulls the fit to it (the members, known to 1e-3 cm-1 each, give the
+     * limit to 7e-5 cm-1); one with 1 cm-1 uncertainty leaves it where the members put it. Bad
+     * values are refused naming the option.
+     */
+    @Test
+    void aKnownLimitIsOneMoreDatum(@TempDir Path dir) throws IOException {
+        Path file = example(dir);
+        double tight = limitFrom(CliTest.run("series", file.toString(), "--format", "json", "--limit",
+                (LIMIT + 0.001) + ",1e-5"));
+        assertEquals(LIMIT + 0.001, tight, 5e-5);
+        double loose = limitFrom(CliTest.run("series", file.toString(), "--format", "json", "--limit",
+                (LIMIT + 0.001) + ",1"));
+        assertEquals(LIMIT, loose, 1e-6);
+        CliTest.Run text = CliTest.run("series", file.toString(), "--limit", "33690.8,0.01");
+        assertEquals(0, text.code(), text.err());
+        assertTrue(text.out().contains("Known limit 33690.8 +- 0.01 cm-1 taken as a datum"), text.out());
+        for (String bad : new String[] {"33690.8", "0,0.01", "33690.8,-1", "33690.8,0.01,3"}) {
+            CliTest.Run run = CliTest.run("series", file.toString(), "--limit", bad);
+            assertEquals(2, run.code(), bad);
+            assertTrue(run.err().contains("--limit takes two numbers"), run.err());
+        }
+    }
+
+    private static double limitFrom(CliTest.Run run) {
+        assertEquals(0, run.code(), run.err());
+        JsonMapper json = JsonMapper.builder().build();
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode row = json.readTree(line);
+            if (row.get("kind").asString().equals("parameter") && row.get("parameter").asString().equals("limit")) {
+                return row.get("value").asDouble();
+            }
+        }
+        throw new AssertionError("no limit in " + run.out());
+    }
+
     @Test
     void badFilesAreRefusedWithFileLineAndColumn(@TempDir Path dir) throws IOException {
         Path bad = dir.resolve("bad.csv");
