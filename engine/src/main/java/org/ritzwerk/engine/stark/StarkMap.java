@@ -478,11 +478,20 @@ public final class StarkMap {
         double[][] energies = new double[fields.length][];
         double[][] characters = path == Path.ENERGIES ? null : new double[fields.length][];
         int[] firstShared = path == Path.WINDOWED ? new int[fields.length] : null;
+        // Field-independent parts, made once per solve: the diagonal (H_0, hartree relative to the
+        // reference) and, per thread, the band workspace; each field only scales the couplings (F z).
+        double[] diagonal = new double[basis.size()];
+        for (int i = 0; i < diagonal.length; i++) {
+            diagonal[i] = AtomicUnits.hartreeFromPerCm(energiesPerCm[i] - origin);
+        }
         if (threads == 1 || fields.length == 1) {
+            BandReduction workspace = path == Path.DENSE ? null : new BandReduction(basis.size(), halfBandwidth);
             for (int f = 0; f < fields.length; f++) {
-                solveOne(fields, f, ref, origin, path, energies, characters, firstShared);
+                solveOne(fields, f, ref, origin, diagonal, workspace, path, energies, characters, firstShared);
             }
         } else {
+            ThreadLocal<BandReduction> workspaces = ThreadLocal.withInitial(
+                    () -> path == Path.DENSE ? null : new BandReduction(basis.size(), halfBandwidth));
             ExecutorService pool = Executors.newFixedThreadPool(Math.min(threads, fields.length), runnable -> {
                 Thread t = new Thread(runnable, "stark-map");
                 t.setDaemon(true);
@@ -492,8 +501,8 @@ public final class StarkMap {
                 List<Future<?>> done = new ArrayList<>();
                 for (int f = 0; f < fields.length; f++) {
                     int field = f;
-                    done.add(pool.submit(() -> solveOne(fields, field, ref, origin, path, energies, characters,
-                            firstShared)));
+                    done.add(pool.submit(() -> solveOne(fields, field, ref, origin, diagonal, workspaces.get(), path,
+                            energies, characters, firstShared)));
                 }
                 for (Future<?> future : done) {
                     future.get();
@@ -525,8 +534,8 @@ public final class StarkMap {
      * Diagonalises at field {@code f} and stores its energies (cm^-1) and characters; on the windowed
      * path the characters are those of the eigenstates {@code firstShared[f]} onwards, in the window.
      */
-    private void solveOne(double[] fields, int f, int ref, double origin, Path path, double[][] energies,
-            double[][] characters, int[] firstShared) {
+    private void solveOne(double[] fields, int f, int ref, double origin, double[] diagonal, BandReduction workspace,
+            Path path, double[][] energies, double[][] characters, int[] firstShared) {
         int n = basis.size();
         double fieldAu = fields[f] / AtomicUnits.FIELD_V_PER_M;
         double[] e = new double[n];
@@ -546,14 +555,12 @@ public final class StarkMap {
                 c[i] = overlap * overlap;
             }
         } else {
-            double[] w = new double[n];
-            w[ref] = 1;
-            double[] diagonal = new double[n];
-            for (int i = 0; i < n; i++) {
-                diagonal[i] = AtomicUnits.hartreeFromPerCm(energiesPerCm[i] - origin);
+            // the energies alone need no tracked vector
+            double[] w = path == Path.ENERGIES ? null : new double[n];
+            if (w != null) {
+                w[ref] = 1;
             }
-            BandReduction reduction = BandReduction.ofCouplings(diagonal, rows, columns, values, fieldAu, halfBandwidth,
-                    w);
+            BandReduction reduction = workspace.load(diagonal, rows, columns, values, fieldAu, w);
             reduction.reduce();
             double[] d = reduction.diagonal();
             double[] off = reduction.offDiagonal();
