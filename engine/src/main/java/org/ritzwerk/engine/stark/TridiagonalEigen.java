@@ -43,7 +43,8 @@ final class TridiagonalEigen {
     /**
      * The most eigenvectors {@link #sharesByInverseIteration} computes: DSTEIN orthogonalises each vector
      * against the earlier ones of its cluster, O(n k^2), which passes DSTEMR's O(n k) with a large
-     * constant at about this many (measured at n = 1,008: 106 vectors in 15 ms against 32 ms).
+     * constant at about this many (a timing of the two calls at n = 1,008 outside JMH, 2026-12-04: 106
+     * vectors in 15 ms against 32 ms; StarkMapOneCoreBenchmark times the whole solve).
      */
     static final int MAX_INVERSE_ITERATION_VECTORS = 150;
 
