@@ -21,13 +21,15 @@ import org.ritzwerk.engine.stark.StarkMapResult;
  * paths (Givens band reduction, then LAPACK's tridiagonal {@code DSTEMR} with the characters,
  * {@code banded}, or {@code DSTERF} for the energies alone, {@code bandedEnergies}, or every energy by
  * {@code DSTERF} and the characters of the eigenstates within {@code windowGHz} of 61D5/2 alone by
- * {@code DSTEMR} over their index range, {@code bandedWindowed}, as the stark-map command solves) beside the naive
+ * inverse iteration ({@code DSTEIN}; {@code DSTEMR} over their index range for a wide window),
+ * {@code bandedWindowed}, as the stark-map command solves) beside the naive
  * baseline, Commons Math's dense symmetric {@code EigenDecomposition} of the whole matrix at each
  * field, which accumulates every eigenvector (the engine's earlier banded path, Commons Math's
  * tridiagonal decomposition, ran at the dense path's speed, ratio 1.04). The basis, its levels and
  * its couplings are built once in the setup; only the per-field work is timed. The paths give the
  * same energies to 1e-9 cm^-1 (StarkAndPairBenchmarksTest, StarkMapTest). Single-shot timing: one
  * map takes seconds. {@code threads} spreads the fields over threads ({@link StarkMap#withThreads}).
+ * The issue's size, 100 fields on one core, is {@link StarkMapOneCoreBenchmark}.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.SingleShotTime)

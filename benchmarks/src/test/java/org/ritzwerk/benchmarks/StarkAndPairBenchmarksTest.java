@@ -46,6 +46,36 @@ class StarkAndPairBenchmarksTest {
     }
 
     @Test
+    void oneCoreMapAndItsDenseBaselineAgree() {
+        StarkMapOneCoreBenchmark b = new StarkMapOneCoreBenchmark();
+        b.nMax = 61;
+        b.fields = 2;                     // 250 and 500 V/m; the baseline solves 250 V/m
+        b.windowGHz = 20;
+        b.setUp();
+        StarkMapResult energies = b.energies();
+        StarkMapResult windowed = b.windowed();
+        StarkMapResult dense = b.naiveDenseOneField();
+        assertEquals(2, energies.fieldCount());
+        assertEquals(2, windowed.fieldCount());
+        assertEquals(250, dense.fieldsVPerM()[0]);
+        assertEquals(250, energies.fieldsVPerM()[0]);
+        double[] ed = dense.energiesPerCm(0);
+        double[] ee = energies.energiesPerCm(0);
+        double[] ew = windowed.energiesPerCm(0);
+        double[] cd = dense.characters(0);
+        int shared = 0;
+        for (int i = 0; i < ed.length; i++) {
+            assertEquals(ed[i], ee[i], 1e-9);
+            assertEquals(ed[i], ew[i], 1e-9);
+            if (windowed.hasShare(0, i)) {
+                assertEquals(cd[i], windowed.share(0, i), 1e-6);
+                shared++;
+            }
+        }
+        assertTrue(shared > 0 && shared < ed.length, shared + " of " + ed.length + " in the window");
+    }
+
+    @Test
     void engineAndNaiveC6Agree() {
         PairC6Benchmark b = new PairC6Benchmark();
         b.n = 70;

@@ -44,11 +44,19 @@ import org.ritzwerk.engine.internal.units.AtomicUnits;
  * Math's dense decomposition, which accumulates every eigenvector by rotations (O(n^3)), as the
  * baseline. Profiling the dense and the earlier banded path (Commons Math's tridiagonal
  * decomposition) at 1,008 states put 96 % of the time in that accumulation and under 5 % in
- * building the matrix and reducing the band. StarkMapBenchmark measures the paths side by side.
+ * building the matrix and reducing the band. StarkMapBenchmark and StarkMapOneCoreBenchmark measure
+ * the paths side by side. H(F) = H_0 + F z: what does not depend on the field (the levels, the
+ * couplings, the diagonal relative to the reference, one band workspace per thread) is made once,
+ * and each field only loads F times the couplings into the band and reduces it. Timing the steps
+ * of the windowed solve at 1,008 states (2026-12-04, with a JFR profile of DSTEMR) put about 60 %
+ * of a field in the band reduction, 10 % in {@code DSTERF} and 30 % in {@code DSTEMR}, mostly its
+ * bisection for the window's eigenvalues; the
+ * reduction now holds the upper band only and the window's vectors come from inverse iteration.
  * Fields are independent; {@link #withThreads} spreads them over threads. A map looked at in an
  * energy window around the state of interest needs the shares only there:
  * {@link #withShareWindowHz} keeps every energy ({@code DSTERF}) and computes the eigenvectors of
- * the eigenstates in the window alone ({@code DSTEMR} over an index range).
+ * the eigenstates in the window alone (inverse iteration, {@code DSTEIN}, from those eigenvalues,
+ * or {@code DSTEMR} over their index range when the window holds many or the matrix splits).
  *
  * <p><b>Accuracy</b>: a state's energy converges as the n range grows around it (see the tests:
  * hydrogen's linear Stark effect, {@code (3/2) n (n1 - n2) F}, within 1e-6 n^2 of the slope in one manifold; the Rb
@@ -343,9 +351,11 @@ public final class StarkMap {
      * only in the eigenstates whose energy lies in a window: from {@code lowerHz} to {@code upperHz}
      * (both included) relative to the reference state's zero-field energy, the scale of
      * {@link StarkMapResult#energiesRelativeHz}. The energies come from LAPACK's {@code DSTERF}; the
-     * eigenvectors of the eigenstates in the window only from {@code DSTEMR} with an index range
-     * ({@code RANGE = 'I'}), so a map whose window holds k of its n states costs about k / n of the
-     * vectors. The result says which eigenstates carry a share ({@link StarkMapResult#hasShare}) and
+     * eigenvectors of the eigenstates in the window only: by inverse iteration from their eigenvalues
+     * ({@code DSTEIN}) for up to 150 of them when no off-diagonal element of the tridiagonal matrix is
+     * negligible, else from {@code DSTEMR} with an index range ({@code RANGE = 'I'}); the two agree to
+     * 1e-9 in the shares (WindowedSharesTest), and a map whose window holds k of its n states costs
+     * about k / n of the vectors. The result says which eigenstates carry a share ({@link StarkMapResult#hasShare}) and
      * refuses to give one it has not computed. {@link #solveEnergies} computes no share and
      * {@link #solveDense}, the baseline, every share, whatever the window.
      *
@@ -418,7 +428,8 @@ public final class StarkMap {
      * O(n^2)) gives the eigenvalues and the tridiagonal eigenvectors, and the reference's share in
      * each eigenstate is the squared product of those with the rotated reference vector. A map with
      * a share window ({@link #withShareWindowHz}) computes every eigenvalue with {@code DSTERF} and the
-     * eigenvectors, and so the shares, of the eigenstates in the window only.
+     * eigenvectors, and so the shares, of the eigenstates in the window only ({@code DSTEIN} or
+     * {@code DSTEMR}, see there).
      *
      * @param fieldsVPerM the fields, V/m, finite; at least one
      * @param reference   the zero-field state whose share in each eigenstate is reported (a basis state)
@@ -478,11 +489,20 @@ public final class StarkMap {
         double[][] energies = new double[fields.length][];
         double[][] characters = path == Path.ENERGIES ? null : new double[fields.length][];
         int[] firstShared = path == Path.WINDOWED ? new int[fields.length] : null;
+        // Field-independent parts, made once per solve: the diagonal (H_0, hartree relative to the
+        // reference) and, per thread, the band workspace; each field only scales the couplings (F z).
+        double[] diagonal = new double[basis.size()];
+        for (int i = 0; i < diagonal.length; i++) {
+            diagonal[i] = AtomicUnits.hartreeFromPerCm(energiesPerCm[i] - origin);
+        }
         if (threads == 1 || fields.length == 1) {
+            BandReduction workspace = path == Path.DENSE ? null : new BandReduction(basis.size(), halfBandwidth);
             for (int f = 0; f < fields.length; f++) {
-                solveOne(fields, f, ref, origin, path, energies, characters, firstShared);
+                solveOne(fields, f, ref, origin, diagonal, workspace, path, energies, characters, firstShared);
             }
         } else {
+            ThreadLocal<BandReduction> workspaces = ThreadLocal.withInitial(
+                    () -> path == Path.DENSE ? null : new BandReduction(basis.size(), halfBandwidth));
             ExecutorService pool = Executors.newFixedThreadPool(Math.min(threads, fields.length), runnable -> {
                 Thread t = new Thread(runnable, "stark-map");
                 t.setDaemon(true);
@@ -492,8 +512,8 @@ public final class StarkMap {
                 List<Future<?>> done = new ArrayList<>();
                 for (int f = 0; f < fields.length; f++) {
                     int field = f;
-                    done.add(pool.submit(() -> solveOne(fields, field, ref, origin, path, energies, characters,
-                            firstShared)));
+                    done.add(pool.submit(() -> solveOne(fields, field, ref, origin, diagonal, workspaces.get(), path,
+                            energies, characters, firstShared)));
                 }
                 for (Future<?> future : done) {
                     future.get();
@@ -525,8 +545,8 @@ public final class StarkMap {
      * Diagonalises at field {@code f} and stores its energies (cm^-1) and characters; on the windowed
      * path the characters are those of the eigenstates {@code firstShared[f]} onwards, in the window.
      */
-    private void solveOne(double[] fields, int f, int ref, double origin, Path path, double[][] energies,
-            double[][] characters, int[] firstShared) {
+    private void solveOne(double[] fields, int f, int ref, double origin, double[] diagonal, BandReduction workspace,
+            Path path, double[][] energies, double[][] characters, int[] firstShared) {
         int n = basis.size();
         double fieldAu = fields[f] / AtomicUnits.FIELD_V_PER_M;
         double[] e = new double[n];
@@ -546,14 +566,12 @@ public final class StarkMap {
                 c[i] = overlap * overlap;
             }
         } else {
-            double[] w = new double[n];
-            w[ref] = 1;
-            double[] diagonal = new double[n];
-            for (int i = 0; i < n; i++) {
-                diagonal[i] = AtomicUnits.hartreeFromPerCm(energiesPerCm[i] - origin);
+            // the energies alone need no tracked vector
+            double[] w = path == Path.ENERGIES ? null : new double[n];
+            if (w != null) {
+                w[ref] = 1;
             }
-            BandReduction reduction = BandReduction.ofCouplings(diagonal, rows, columns, values, fieldAu, halfBandwidth,
-                    w);
+            BandReduction reduction = workspace.load(diagonal, rows, columns, values, fieldAu, w);
             reduction.reduce();
             double[] d = reduction.diagonal();
             double[] off = reduction.offDiagonal();
@@ -576,16 +594,19 @@ public final class StarkMap {
     /**
      * The windowed path at one field: every eigenvalue by {@code DSTERF}, the index range of those
      * in the share window (judged on {@link StarkMapResult#energiesRelativeHz}'s scale, so the result
-     * and its window agree state by state), and {@code DSTEMR}'s vectors for that range alone.
+     * and its window agree state by state), and the vectors for that range alone: by inverse iteration
+     * from those eigenvalues ({@code DSTEIN}) when the window holds few and the matrix does not split,
+     * else (or when {@code DSTEIN} does not converge) by {@code DSTEMR} over the index range.
      */
     private void windowed(double[] d, double[] off, double[] tracked, int f, double origin, double[][] energies,
             double[][] characters, int[] firstShared) {
         int n = d.length;
-        double[] e = TridiagonalEigen.eigenvalues(d.clone(), off.clone());
+        double[] hartree = TridiagonalEigen.eigenvalues(d.clone(), off.clone());
+        double[] e = new double[n];
         int first = -1;
         int last = -2;
         for (int i = 0; i < n; i++) {
-            e[i] = e[i] * AtomicUnits.HARTREE_PER_CM + origin;
+            e[i] = hartree[i] * AtomicUnits.HARTREE_PER_CM + origin;
             double hz = StarkMapResult.relativeHz(e[i], origin);
             if (hz >= shareWindowHz[0] && hz <= shareWindowHz[1]) {
                 if (first < 0) {
@@ -600,7 +621,8 @@ public final class StarkMap {
             characters[f] = new double[0];
         } else {
             firstShared[f] = first;
-            characters[f] = TridiagonalEigen.sharesOfIndexRange(d, off, tracked, first, last);
+            double[] shares = TridiagonalEigen.sharesByInverseIteration(d, off, tracked, hartree, first, last);
+            characters[f] = shares != null ? shares : TridiagonalEigen.sharesOfIndexRange(d, off, tracked, first, last);
         }
     }
 }

@@ -16,7 +16,9 @@ import java.lang.invoke.MethodType;
  * <li>eigenvalues and eigenvectors: {@code DSTEMR}, the multiple relatively robust representations
  * algorithm (I. S. Dhillon, B. N. Parlett and C. Voemel, ACM Trans. Math. Softw. 32, 533 (2006)),
  * O(n^2) for all n vectors, where the implicit QL with accumulated rotations costs O(n^3); with
- * {@code RANGE = 'I'} only the vectors of an index range of eigenvalues, O(n k) for k of them.</li>
+ * {@code RANGE = 'I'} only the vectors of an index range of eigenvalues, O(n k) for k of them;</li>
+ * <li>the eigenvectors of a few known eigenvalues: {@code DSTEIN}, inverse iteration (see
+ * {@link #sharesByInverseIteration}).</li>
  * </ul>
  * Of the eigenvectors only one number each is kept: the squared projection of a tracked vector
  * (the reference state carried through the band reduction). LAPACK's saved machine constants
@@ -37,6 +39,14 @@ final class TridiagonalEigen {
     private static final MethodHandle NEW_BOOLEAN;
     private static final MethodHandle DSTERF;
     private static final MethodHandle DSTEMR;
+    private static final MethodHandle DSTEIN;
+    /**
+     * The most eigenvectors {@link #sharesByInverseIteration} computes: DSTEIN orthogonalises each vector
+     * against the earlier ones of its cluster, O(n k^2), which passes DSTEMR's O(n k) with a large
+     * constant at about this many (a timing of the two calls at n = 1,008 outside JMH, 2026-12-04: 106
+     * vectors in 15 ms against 32 ms; StarkMapOneCoreBenchmark times the whole solve).
+     */
+    static final int MAX_INVERSE_ITERATION_VECTORS = 150;
 
     static {
         try {
@@ -53,6 +63,9 @@ final class TridiagonalEigen {
                     String.class, int.class, double[].class, double[].class, double.class, double.class, int.class,
                     int.class, intW, double[].class, double[].class, int.class, int.class, int[].class, booleanW,
                     double[].class, int.class, int[].class, int.class, intW));
+            DSTEIN = lookup.findVirtual(LAPACK.class, "dstein", MethodType.methodType(void.class, int.class,
+                    double[].class, double[].class, int.class, double[].class, int[].class, int[].class,
+                    double[].class, int.class, double[].class, int[].class, int[].class, intW));
         } catch (ReflectiveOperationException e) {
             throw new ExceptionInInitializerError(e);
         }
@@ -165,6 +178,79 @@ final class TridiagonalEigen {
             throw new ArithmeticException("DSTEMR found " + value(found) + " of the " + k + " eigenvalues "
                     + (first + 1) + " to " + (last + 1));
         }
+        double[] shares = new double[k];
+        for (int i = 0; i < k; i++) {
+            double overlap = 0;
+            int column = i * n;
+            for (int j = 0; j < n; j++) {
+                overlap += z[column + j] * tracked[j];
+            }
+            shares[i] = overlap * overlap;
+        }
+        return shares;
+    }
+
+    /**
+     * The shares of a contiguous run of eigenstates by inverse iteration: LAPACK's {@code DSTEIN}
+     * (inverse iteration with the tridiagonal LU factorisation, each vector orthogonalised against
+     * the earlier ones whose eigenvalues lie within 1e-3 of the matrix's norm; LAPACK Users' Guide,
+     * 3rd ed., SIAM (1999)) from eigenvalues already computed ({@code DSTERF}), so no eigenvalue is
+     * searched for again. O(n k) for the solves and O(n k^2) for the orthogonalisation of k vectors in
+     * one cluster. Declines, returning null, where DSTEIN is not the safe choice: when the run holds
+     * more than {@link #MAX_INVERSE_ITERATION_VECTORS} vectors, when an off-diagonal element is
+     * negligible (the matrix splits, as at zero field, where the eigenvalues of the blocks interleave
+     * and DSTEIN would need them block by block) or when a vector does not converge (LAPACK's INFO
+     * &gt; 0); {@link #sharesOfIndexRange} ({@code DSTEMR}) then gives them.
+     *
+     * @param diagonal    the diagonal, n values, not changed
+     * @param offDiagonal the first off-diagonal, n - 1 values, not changed
+     * @param tracked     a vector of n values in the tridiagonal basis
+     * @param eigenvalues every eigenvalue of the matrix, ascending (DSTERF's), not changed
+     * @param first       the index of the lowest eigenvalue wanted, 0 &le; first &le; last
+     * @param last        the index of the highest eigenvalue wanted, last &lt; n
+     * @return {@code (tracked . v_i)^2} for i = first to last, in that order; null when declined
+     */
+    static double[] sharesByInverseIteration(double[] diagonal, double[] offDiagonal, double[] tracked,
+            double[] eigenvalues, int first, int last) {
+        int n = diagonal.length;
+        if (first < 0 || last < first || last >= n) {
+            throw new IllegalArgumentException("eigenvalue indices must satisfy 0 <= first <= last < " + n + ", got "
+                    + first + " to " + last);
+        }
+        int k = last - first + 1;
+        if (k > MAX_INVERSE_ITERATION_VECTORS || n < 2) {
+            return null;
+        }
+        double ulp = Math.ulp(1.0);
+        for (int i = 0; i < n - 1; i++) {
+            double scale = Math.max(Math.abs(diagonal[i]), Math.abs(diagonal[i + 1]));
+            if (!(Math.abs(offDiagonal[i]) > 4 * ulp * scale)) {
+                return null;
+            }
+        }
+        double[] d = diagonal.clone();
+        double[] e = new double[n];
+        System.arraycopy(offDiagonal, 0, e, 0, n - 1);
+        double[] w = java.util.Arrays.copyOfRange(eigenvalues, first, last + 1);
+        int[] block = new int[k];
+        java.util.Arrays.fill(block, 1);
+        int[] split = new int[n];
+        split[0] = n;
+        double[] z = new double[n * k];
+        double[] work = new double[5 * n];
+        int[] iwork = new int[n];
+        int[] failed = new int[k];
+        Object info = holder(0);
+        try {
+            DSTEIN.invoke(LAPACK, n, d, e, k, w, block, split, z, n, work, iwork, failed, info);
+        } catch (Throwable t) {
+            throw rethrow("DSTEIN", t);
+        }
+        int status = value(info);
+        if (status > 0) {
+            return null;
+        }
+        check("DSTEIN", status);
         double[] shares = new double[k];
         for (int i = 0; i < k; i++) {
             double overlap = 0;
