@@ -14,6 +14,7 @@ import org.apache.spark.sql.SparkSession;
 import org.apache.spark.sql.catalyst.InternalRow;
 import org.apache.spark.sql.catalyst.expressions.GenericInternalRow;
 import org.apache.spark.sql.catalyst.expressions.UnsafeArrayData;
+import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeRowWriter;
 import org.apache.spark.sql.catalyst.util.ArrayData;
 import org.apache.spark.sql.catalyst.util.GenericArrayData;
 import org.apache.spark.sql.types.StructType;
@@ -140,6 +141,24 @@ final class Catalyst {
     /** @return the string in Spark's form, or null */
     static UTF8String utf8(String value) {
         return value == null ? null : UTF8String.fromString(value);
+    }
+
+    /** Writes the string into the row, or null. */
+    static void string(UnsafeRowWriter writer, int field, UTF8String value) {
+        if (value == null) {
+            writer.setNullAt(field);
+        } else {
+            writer.write(field, value);
+        }
+    }
+
+    /** Writes the value into the row, or null for NaN (undefined doubles are null in the output tables). */
+    static void orNull(UnsafeRowWriter writer, int field, double value) {
+        if (Double.isNaN(value)) {
+            writer.setNullAt(field);
+        } else {
+            writer.write(field, value);
+        }
     }
 
     /** @return the value, or null for NaN (undefined doubles are null in the output tables) */

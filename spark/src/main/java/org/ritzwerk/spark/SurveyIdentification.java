@@ -339,11 +339,11 @@ public final class SurveyIdentification {
                     }
                 } else {
                     double line = converted[k++];
-                    string(peakOut, 3, notations[lines.speciesIndex(j)]);
-                    string(peakOut, 4, strings.of(lines.label(j)));
+                    Catalyst.string(peakOut, 3, notations[lines.speciesIndex(j)]);
+                    Catalyst.string(peakOut, 4, strings.of(lines.label(j)));
                     peakOut.write(5, line);
                     peakOut.write(6, positions[i] - line);
-                    orNull(peakOut, 7, result.normalizedResidual(i));
+                    Catalyst.orNull(peakOut, 7, result.normalizedResidual(i));
                 }
                 peaksOut.setOffsetAndSizeFromPreviousCursor(i, at);
             }
@@ -401,15 +401,15 @@ public final class SurveyIdentification {
                 int at = presenceOut.cursor();
                 presenceRowOut.resetRowWriter();
                 // In the catalogue's species order; the name made once unless the engine says otherwise.
-                string(presenceRowOut, 0, k < notations.length && s.species() == notationsOf.get(k) ? notations[k]
-                        : strings.of(s.species().notation()));
+                Catalyst.string(presenceRowOut, 0, k < notations.length && s.species() == notationsOf.get(k)
+                        ? notations[k] : strings.of(s.species().notation()));
                 presenceRowOut.write(1, s.matched());
                 presenceRowOut.write(2, s.matchedByChance());
                 presenceRowOut.write(3, s.strongInRange());
                 presenceRowOut.write(4, s.strongMatched());
                 presenceRowOut.write(5, s.strongByChance());
-                orNull(presenceRowOut, 6, s.chanceProbability());
-                orNull(presenceRowOut, 7, s.presence());
+                Catalyst.orNull(presenceRowOut, 6, s.chanceProbability());
+                Catalyst.orNull(presenceRowOut, 7, s.presence());
                 presenceOut.setOffsetAndSizeFromPreviousCursor(k, at);
             }
             out.setOffsetAndSizeFromPreviousCursor(12, start);
@@ -422,8 +422,8 @@ public final class SurveyIdentification {
                     PlasmaEstimate.Row r = plasma.get(k);
                     int at = plasmaOut.cursor();
                     plasmaRowOut.resetRowWriter();
-                    string(plasmaRowOut, 0, strings.of(r.species().notation()));
-                    string(plasmaRowOut, 1, strings.of(r.quantity().id()));
+                    Catalyst.string(plasmaRowOut, 0, strings.of(r.species().notation()));
+                    Catalyst.string(plasmaRowOut, 1, strings.of(r.quantity().id()));
                     if (r.value().isPresent()) {
                         plasmaRowOut.write(2, r.value().getAsDouble());
                     } else {
@@ -434,9 +434,9 @@ public final class SurveyIdentification {
                     } else {
                         plasmaRowOut.setNullAt(3);
                     }
-                    string(plasmaRowOut, 4, strings.of(r.quantity().unit()));
-                    string(plasmaRowOut, 5, Catalyst.utf8(r.lines()));
-                    string(plasmaRowOut, 6, Catalyst.utf8(r.note()));
+                    Catalyst.string(plasmaRowOut, 4, strings.of(r.quantity().unit()));
+                    Catalyst.string(plasmaRowOut, 5, Catalyst.utf8(r.lines()));
+                    Catalyst.string(plasmaRowOut, 6, Catalyst.utf8(r.note()));
                     plasmaOut.setOffsetAndSizeFromPreviousCursor(k, at);
                 }
                 out.setOffsetAndSizeFromPreviousCursor(13, start);
@@ -454,27 +454,9 @@ public final class SurveyIdentification {
             for (int field = 1; field < 14; field++) {
                 out.setNullAt(field);
             }
-            string(out, 14, Catalyst.utf8(e.code()));
-            string(out, 15, Catalyst.utf8(e.getMessage()));
+            Catalyst.string(out, 14, Catalyst.utf8(e.code()));
+            Catalyst.string(out, 15, Catalyst.utf8(e.getMessage()));
             return out.getRow();
-        }
-
-        /** Writes the string, or null. */
-        private static void string(UnsafeRowWriter writer, int field, UTF8String value) {
-            if (value == null) {
-                writer.setNullAt(field);
-            } else {
-                writer.write(field, value);
-            }
-        }
-
-        /** Writes the value, or null for NaN (undefined doubles are null in the output tables). */
-        private static void orNull(UnsafeRowWriter writer, int field, double value) {
-            if (Double.isNaN(value)) {
-                writer.setNullAt(field);
-            } else {
-                writer.write(field, value);
-            }
         }
 
         /**
