@@ -33,7 +33,11 @@ import scala.reflect.ClassTag$;
  * one generated method too large for the JIT compiler, which then runs interpreted. Here arrays of
  * doubles are copied in one piece ({@link ArrayData#toDoubleArray()},
  * {@link UnsafeArrayData#fromPrimitiveArray(double[])}), and output rows are built directly in
- * the form Spark stores.
+ * the form Spark stores: identification and synthesis write them with Spark's
+ * {@link UnsafeRowWriter} into its binary row form (then Spark's conversion of the operation's
+ * rows copies each nested array in one piece instead of element by element, and no value is
+ * boxed; a profile of identification in local[1] had row building and that conversion at about
+ * 23 % of the time, 12 % after), calibration as generic rows of these values.
  *
  * <p>This uses two members that Spark marks as internal to its SQL package (a Dataset's query
  * execution and the session's {@code internalCreateDataFrame}); they are the ones Spark's own
