@@ -8,6 +8,7 @@ import org.apache.spark.sql.catalyst.util.ArrayData;
 import org.apache.spark.sql.types.DataType;
 import org.apache.spark.sql.types.StructField;
 import org.apache.spark.sql.types.StructType;
+import org.apache.spark.unsafe.types.UTF8String;
 
 /**
  * Where an input table keeps the columns an operation reads, checked against the documented
@@ -228,6 +229,14 @@ final class Fields implements Serializable {
             throw new SparkRowException(SparkRowException.BAD_FIELD, "null", names[0], "the id is null");
         }
         return row.getUTF8String(index[0]).toString();
+    }
+
+    /** @return the row's id in Spark's form, checked not null; valid until the row is read past */
+    UTF8String utf8Id(InternalRow row) {
+        if (row.isNullAt(index[0])) {
+            throw new SparkRowException(SparkRowException.BAD_FIELD, "null", names[0], "the id is null");
+        }
+        return row.getUTF8String(index[0]);
     }
 
     /** @return the double, checked not null and finite */

@@ -148,8 +148,9 @@ final class Setups {
         /**
          * @param parameters the broadcast parameters
          * @param fields     the input's fields
-         * @return the partition's row mapping, with its setup made; its result may not be
-         *         reused by the next call
+         * @return the partition's row mapping, with its setup made; its result may be
+         *         overwritten by the next call (Spark copies each row out before it asks for the
+         *         next, as with its own row iterators)
          */
         Function<InternalRow, InternalRow> setUp(P parameters, Fields fields);
     }

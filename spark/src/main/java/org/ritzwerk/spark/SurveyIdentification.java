@@ -18,6 +18,9 @@ import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.api.java.UDF2;
 import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.sql.catalyst.expressions.UnsafeRow;
+import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeArrayWriter;
+import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeRowWriter;
 import org.apache.spark.sql.types.DataTypes;
 import org.apache.spark.unsafe.types.UTF8String;
 import org.ritzwerk.RitzwerkException;
@@ -176,6 +179,15 @@ public final class SurveyIdentification {
         /** The fixed window's candidates, or null for a window per spectrum. */
         private final Candidates fixed;
         private final Catalyst.Strings strings = new Catalyst.Strings();
+        /** The output row's writers (one spectrum, its peaks, missing lines, presence and plasma rows). */
+        private final UnsafeRowWriter out = new UnsafeRowWriter(Schemas.IDENTIFIED_SPECTRA.size(), 4096);
+        private final UnsafeArrayWriter peaksOut = new UnsafeArrayWriter(out, 8);
+        private final UnsafeRowWriter peakOut = new UnsafeRowWriter(peaksOut, Schemas.IDENTIFIED_PEAK.size());
+        private final UnsafeArrayWriter missingOut = new UnsafeArrayWriter(out, 8);
+        private final UnsafeArrayWriter presenceOut = new UnsafeArrayWriter(out, 8);
+        private final UnsafeRowWriter presenceRowOut = new UnsafeRowWriter(presenceOut, Schemas.PRESENCE.size());
+        private final UnsafeArrayWriter plasmaOut = new UnsafeArrayWriter(out, 8);
+        private final UnsafeRowWriter plasmaRowOut = new UnsafeRowWriter(plasmaOut, Schemas.PLASMA.size());
         /** The species list whose names {@link #notations} holds (catalogues of one setup share it). */
         private List<Species> notationsOf;
         private UTF8String[] notations;
@@ -257,16 +269,15 @@ public final class SurveyIdentification {
             try {
                 Candidates candidates = fixed != null ? fixed : candidates(search.candidateWindow(peaks));
                 IdentificationSearch.Report report = search.run(peaks, candidates.catalog());
-                Object[] plasma = null;
+                List<PlasmaEstimate.Row> plasma = null;
                 if (p.plasma()) {
-                    plasma = plasmaRows(estimate.estimate(new PlasmaEstimate.Peaks(positions, unit, medium,
+                    plasma = estimate.estimate(new PlasmaEstimate.Peaks(positions, unit, medium,
                             orNaN(intensities, n), orNaN(widths, n)), report.identification(), report.lines(),
-                            candidates));
+                            candidates);
                 }
-                return row(id, positions, report, plasma);
+                return row(f.utf8Id(row), positions, report, plasma);
             } catch (RitzwerkException e) {
-                return Catalyst.row(Catalyst.utf8(id), null, null, null, null, null, null, null, null, null, null, null,
-                        null, null, Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()));
+                return refused(f.utf8Id(row), e);
             }
         }
 
@@ -280,11 +291,17 @@ public final class SurveyIdentification {
         }
 
         /**
-         * The output row, in Spark's form: each matched line's position converted in one call for
-         * the whole list (the conversion is element by element, so each value is the one a call
-         * per line gives), species names and labels in Spark's form made once per partition.
+         * The output row, written straight into Spark's binary row form ({@link UnsafeRow}) by
+         * writers made once per partition: no boxed values, no intermediate row objects, and
+         * Spark's own conversion of the operation's rows then copies each nested array in one
+         * piece. Each matched line's position is converted in one call for the whole list (the
+         * conversion is element by element, so each value is the one a call per line gives);
+         * species names and labels in Spark's form are made once per partition. The row is the
+         * writers' and is overwritten by the next one (Spark reads each row before asking for
+         * the next).
          */
-        private InternalRow row(String id, double[] positions, IdentificationSearch.Report report, Object[] plasma) {
+        private InternalRow row(UTF8String id, double[] positions, IdentificationSearch.Report report,
+                List<PlasmaEstimate.Row> plasma) {
             Identification result = report.identification();
             LineCatalog lines = report.lines();
             int n = positions.length;
@@ -302,26 +319,68 @@ public final class SurveyIdentification {
                 SpectralArrays.convert(m == n ? matched : Arrays.copyOf(matched, m), Unit.METRE, Medium.vacuum(), unit,
                         medium, converted);
             }
-            Object[] peakRows = new Object[n];
+            out.reset();
+            out.zeroOutNullBytes();
+            out.write(0, id);
+            int start = out.cursor();
+            peaksOut.initialize(n);
             for (int i = 0, k = 0; i < n; i++) {
                 int j = result.line(i);
                 int status = result.status(i);
-                UTF8String statusText = status == Identification.MATCHED ? MATCHED
-                        : status == Identification.AMBIGUOUS ? AMBIGUOUS : UNEXPLAINED;
+                int at = peaksOut.cursor();
+                peakOut.resetRowWriter();
+                peakOut.write(0, i);
+                peakOut.write(1, positions[i]);
+                peakOut.write(2, status == Identification.MATCHED ? MATCHED
+                        : status == Identification.AMBIGUOUS ? AMBIGUOUS : UNEXPLAINED);
                 if (j < 0) {
-                    peakRows[i] = Catalyst.row(i, positions[i], statusText, null, null, null, null, null);
-                    continue;
+                    for (int field = 3; field < 8; field++) {
+                        peakOut.setNullAt(field);
+                    }
+                } else {
+                    double line = converted[k++];
+                    Catalyst.string(peakOut, 3, notations[lines.speciesIndex(j)]);
+                    Catalyst.string(peakOut, 4, strings.of(lines.label(j)));
+                    peakOut.write(5, line);
+                    peakOut.write(6, positions[i] - line);
+                    Catalyst.orNull(peakOut, 7, result.normalizedResidual(i));
                 }
-                double line = converted[k++];
-                peakRows[i] = Catalyst.row(i, positions[i], statusText, notations[lines.speciesIndex(j)],
-                        strings.of(lines.label(j)), line, positions[i] - line,
-                        Catalyst.orNull(result.normalizedResidual(i)));
+                peaksOut.setOffsetAndSizeFromPreviousCursor(i, at);
             }
+            out.setOffsetAndSizeFromPreviousCursor(1, start);
+            out.write(2, result.count(Identification.MATCHED));
+            out.write(3, result.count(Identification.AMBIGUOUS));
+            out.write(4, result.count(Identification.UNEXPLAINED));
             ShiftSearch.Fit velocity = report.velocity().orElse(null);
+            if (velocity == null || velocity.matches() == 0) {
+                out.setNullAt(5);
+            } else {
+                out.write(5, velocity.velocity());
+            }
+            if (velocity == null) {
+                out.setNullAt(6);
+                out.setNullAt(7);
+            } else {
+                sigma(out, 6, velocity.velocityUncertainty(), velocity.matches());
+                out.write(7, velocity.matches());
+            }
             ShiftSearch.Fit offset = report.offset().orElse(null);
+            if (offset == null || offset.matches() == 0) {
+                out.setNullAt(8);
+            } else {
+                out.write(8, offset.value() * 1e9);
+            }
+            if (offset == null) {
+                out.setNullAt(9);
+                out.setNullAt(10);
+            } else {
+                sigma(out, 9, offset.uncertainty() * 1e9, offset.matches());
+                out.write(10, offset.matches());
+            }
             int[] missing = result.missingStrongLines();
-            Object[] missingNames = new Object[missing.length];
             UTF8String[] names = missing.length == 0 ? null : lineNames();
+            start = out.cursor();
+            missingOut.initialize(missing.length);
             for (int k = 0; k < missing.length; k++) {
                 int j = missing[k];
                 UTF8String name = names == null ? null : names[j];
@@ -331,29 +390,73 @@ public final class SurveyIdentification {
                         names[j] = name;
                     }
                 }
-                missingNames[k] = name;
+                missingOut.write(k, name);
             }
+            out.setOffsetAndSizeFromPreviousCursor(11, start);
             List<Identification.SpeciesPresence> presence = result.speciesPresence();
-            Object[] presenceRows = new Object[presence.size()];
-            for (int k = 0; k < presenceRows.length; k++) {
+            start = out.cursor();
+            presenceOut.initialize(presence.size());
+            for (int k = 0; k < presence.size(); k++) {
                 Identification.SpeciesPresence s = presence.get(k);
+                int at = presenceOut.cursor();
+                presenceRowOut.resetRowWriter();
                 // In the catalogue's species order; the name made once unless the engine says otherwise.
-                UTF8String species = k < notations.length && s.species() == notationsOf.get(k) ? notations[k]
-                        : strings.of(s.species().notation());
-                presenceRows[k] = Catalyst.row(species, s.matched(), s.matchedByChance(),
-                        s.strongInRange(), s.strongMatched(), s.strongByChance(),
-                        Catalyst.orNull(s.chanceProbability()), Catalyst.orNull(s.presence()));
+                Catalyst.string(presenceRowOut, 0, k < notations.length && s.species() == notationsOf.get(k)
+                        ? notations[k] : strings.of(s.species().notation()));
+                presenceRowOut.write(1, s.matched());
+                presenceRowOut.write(2, s.matchedByChance());
+                presenceRowOut.write(3, s.strongInRange());
+                presenceRowOut.write(4, s.strongMatched());
+                presenceRowOut.write(5, s.strongByChance());
+                Catalyst.orNull(presenceRowOut, 6, s.chanceProbability());
+                Catalyst.orNull(presenceRowOut, 7, s.presence());
+                presenceOut.setOffsetAndSizeFromPreviousCursor(k, at);
             }
-            return Catalyst.row(Catalyst.utf8(id), Catalyst.array(peakRows), result.count(Identification.MATCHED),
-                    result.count(Identification.AMBIGUOUS), result.count(Identification.UNEXPLAINED),
-                    velocity == null || velocity.matches() == 0 ? null : velocity.velocity(),
-                    velocity == null ? null : sigma(velocity.velocityUncertainty(), velocity.matches()),
-                    velocity == null ? null : velocity.matches(),
-                    offset == null || offset.matches() == 0 ? null : offset.value() * 1e9,
-                    offset == null ? null : sigma(offset.uncertainty() * 1e9, offset.matches()),
-                    offset == null ? null : offset.matches(),
-                    Catalyst.array(missingNames), Catalyst.array(presenceRows),
-                    plasma == null ? null : Catalyst.array(plasma), null, null);
+            out.setOffsetAndSizeFromPreviousCursor(12, start);
+            if (plasma == null) {
+                out.setNullAt(13);
+            } else {
+                start = out.cursor();
+                plasmaOut.initialize(plasma.size());
+                for (int k = 0; k < plasma.size(); k++) {
+                    PlasmaEstimate.Row r = plasma.get(k);
+                    int at = plasmaOut.cursor();
+                    plasmaRowOut.resetRowWriter();
+                    Catalyst.string(plasmaRowOut, 0, strings.of(r.species().notation()));
+                    Catalyst.string(plasmaRowOut, 1, strings.of(r.quantity().id()));
+                    if (r.value().isPresent()) {
+                        plasmaRowOut.write(2, r.value().getAsDouble());
+                    } else {
+                        plasmaRowOut.setNullAt(2);
+                    }
+                    if (r.uncertainty().isPresent()) {
+                        plasmaRowOut.write(3, r.uncertainty().getAsDouble());
+                    } else {
+                        plasmaRowOut.setNullAt(3);
+                    }
+                    Catalyst.string(plasmaRowOut, 4, strings.of(r.quantity().unit()));
+                    Catalyst.string(plasmaRowOut, 5, Catalyst.utf8(r.lines()));
+                    Catalyst.string(plasmaRowOut, 6, Catalyst.utf8(r.note()));
+                    plasmaOut.setOffsetAndSizeFromPreviousCursor(k, at);
+                }
+                out.setOffsetAndSizeFromPreviousCursor(13, start);
+            }
+            out.setNullAt(14);
+            out.setNullAt(15);
+            return out.getRow();
+        }
+
+        /** @return the row of a spectrum the job refused: its id, the error's code and message */
+        private InternalRow refused(UTF8String id, RitzwerkException e) {
+            out.reset();
+            out.zeroOutNullBytes();
+            out.write(0, id);
+            for (int field = 1; field < 14; field++) {
+                out.setNullAt(field);
+            }
+            Catalyst.string(out, 14, Catalyst.utf8(e.code()));
+            Catalyst.string(out, 15, Catalyst.utf8(e.getMessage()));
+            return out.getRow();
         }
 
         /**
@@ -384,21 +487,13 @@ public final class SurveyIdentification {
             return notations;
         }
 
-        /** One line gives no uncertainty; nor does a fit whose uncertainty is not finite. */
-        private static Double sigma(double value, int lines) {
-            return lines < 2 || !Double.isFinite(value) ? null : value;
-        }
-
-        private Object[] plasmaRows(List<PlasmaEstimate.Row> rows) {
-            Object[] out = new Object[rows.size()];
-            for (int k = 0; k < out.length; k++) {
-                PlasmaEstimate.Row r = rows.get(k);
-                out[k] = Catalyst.row(strings.of(r.species().notation()), strings.of(r.quantity().id()),
-                        r.value().isPresent() ? r.value().getAsDouble() : null,
-                        r.uncertainty().isPresent() ? r.uncertainty().getAsDouble() : null,
-                        strings.of(r.quantity().unit()), Catalyst.utf8(r.lines()), Catalyst.utf8(r.note()));
+        /** Writes the uncertainty; one line gives none (null), nor does a fit whose uncertainty is not finite. */
+        private static void sigma(UnsafeRowWriter writer, int field, double value, int lines) {
+            if (lines < 2 || !Double.isFinite(value)) {
+                writer.setNullAt(field);
+            } else {
+                writer.write(field, value);
             }
-            return out;
         }
     }
 }

@@ -7,6 +7,8 @@ import java.util.Objects;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeArrayWriter;
+import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeRowWriter;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.synth.Instrument;
@@ -77,6 +79,11 @@ public final class SurveySynthesis {
         private final Renderer renderer;
         private final Map<String, Setups.Atoms> species = new HashMap<>();
         private final Catalyst.Strings strings = new Catalyst.Strings();
+        /** The output row's writers: the spectrum, its arrays of doubles and its true lines. */
+        private final UnsafeRowWriter out = new UnsafeRowWriter(Schemas.SPECTRA.size(), 65536);
+        private final UnsafeArrayWriter arrayOut = new UnsafeArrayWriter(out, 8);
+        private final UnsafeArrayWriter linesOut = new UnsafeArrayWriter(out, 8);
+        private final UnsafeRowWriter lineOut = new UnsafeRowWriter(linesOut, Schemas.TRUE_LINE.size());
 
         Setup(SynthesisParameters p) {
             this.p = p;
@@ -154,17 +161,51 @@ public final class SurveySynthesis {
             try {
                 spectrum = builder.build().render(1);
             } catch (SceneException e) {
-                return Catalyst.row(Catalyst.utf8(id), null, null, null, Catalyst.utf8(e.code()),
-                        Catalyst.utf8(e.getMessage()));
+                out.reset();
+                out.zeroOutNullBytes();
+                out.write(0, f.utf8Id(row));
+                out.setNullAt(1);
+                out.setNullAt(2);
+                out.setNullAt(3);
+                Catalyst.string(out, 4, Catalyst.utf8(e.code()));
+                Catalyst.string(out, 5, Catalyst.utf8(e.getMessage()));
+                return out.getRow();
             }
+            // Written straight into Spark's binary row form (see SurveyIdentification): no copies of
+            // the arrays in between, no boxed values; the row is overwritten by the next one.
+            out.reset();
+            out.zeroOutNullBytes();
+            out.write(0, f.utf8Id(row));
+            doubles(1, spectrum.counts());
+            doubles(2, spectrum.expectedCounts());
             Scene.Lines lines = spectrum.lines();
-            Object[] truth = new Object[lines.size()];
-            for (int i = 0; i < truth.length; i++) {
-                truth[i] = Catalyst.row(strings.of(lines.label(i)), lines.position(i), lines.photons(i),
-                        lines.gaussianFwhm(i), lines.lorentzFwhm(i), spectrum.lineCounts(i));
+            int start = out.cursor();
+            linesOut.initialize(lines.size());
+            for (int i = 0; i < lines.size(); i++) {
+                int at = linesOut.cursor();
+                lineOut.resetRowWriter();
+                Catalyst.string(lineOut, 0, strings.of(lines.label(i)));
+                lineOut.write(1, lines.position(i));
+                lineOut.write(2, lines.photons(i));
+                lineOut.write(3, lines.gaussianFwhm(i));
+                lineOut.write(4, lines.lorentzFwhm(i));
+                lineOut.write(5, spectrum.lineCounts(i));
+                linesOut.setOffsetAndSizeFromPreviousCursor(i, at);
             }
-            return Catalyst.row(Catalyst.utf8(id), Catalyst.doubles(spectrum.counts()),
-                    Catalyst.doubles(spectrum.expectedCounts()), Catalyst.array(truth), null, null);
+            out.setOffsetAndSizeFromPreviousCursor(3, start);
+            out.setNullAt(4);
+            out.setNullAt(5);
+            return out.getRow();
+        }
+
+        /** Writes the doubles as the output row's field. */
+        private void doubles(int field, double[] values) {
+            int start = out.cursor();
+            arrayOut.initialize(values.length);
+            for (int i = 0; i < values.length; i++) {
+                arrayOut.write(i, values[i]);
+            }
+            out.setOffsetAndSizeFromPreviousCursor(field, start);
         }
     }
 }

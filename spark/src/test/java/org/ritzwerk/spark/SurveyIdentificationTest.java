@@ -23,6 +23,7 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.IdentificationException;
 import org.ritzwerk.engine.identify.IdentificationSearch;
 import org.ritzwerk.engine.identify.Identifier;
 import org.ritzwerk.engine.identify.LineCatalog;
@@ -50,13 +51,20 @@ class SurveyIdentificationTest {
         final boolean plasma;
         final DataContext data = DataContext.discoverDefault();
 
+        final IdentificationSearch search;
+
+        /** With the velocity search of 100 km/s. */
         Library(List<String> species, boolean plasma) {
-            this.species = species;
-            this.plasma = plasma;
+            this(species, plasma, IdentificationSearch.of(Identifier.of(Tolerance.parse("5 sigma")))
+                    .withVelocitySearch(100e3));
         }
 
-        final IdentificationSearch search = IdentificationSearch.of(Identifier.of(Tolerance.parse("5 sigma")))
-                .withVelocitySearch(100e3);
+        Library(List<String> species, boolean plasma, IdentificationSearch search) {
+            this.species = species;
+            this.plasma = plasma;
+            this.search = search;
+        }
+
         final PlasmaEstimate estimate = PlasmaEstimate.defaults().withInstrumentFwhm(0.05);
 
         Candidates candidates(double lo, double hi) {
@@ -112,6 +120,47 @@ class SurveyIdentificationTest {
         assertEquals(Schemas.IDENTIFIED_PEAKS.simpleString(), result.peaks().schema().simpleString());
     }
 
+    @Test
+    void offsetSearchAndARefusedSpectrumGiveTheLibrarysValues() {
+        SparkSession spark = LocalSpark.session();
+        List<Fixtures.PeakListData> lists = new ArrayList<>(Fixtures.peakLists(HYDROGEN, 4, 8, 1, 21L));
+        // No H I line lies near 30 nm (below the Lyman limit): the library refuses this spectrum.
+        lists.add(new Fixtures.PeakListData("far-uv", new double[] {30.0, 31.0}, new double[] {1e-3, 1e-3},
+                new double[] {100, 200}, new double[] {0.05, 0.05}));
+        IdentificationParameters parameters = IdentificationParameters.perSpectrumWindow(HYDROGEN, List.of())
+                .withOffsetSearch(0.3).withPlasmaEstimate(0.05);
+        Library library = new Library(HYDROGEN, true, IdentificationSearch.of(Identifier.of(Tolerance.parse(
+                "5 sigma"))).withOffsetSearch(0.3e-9));
+        List<Row> rows = SurveyIdentification.of(parameters).identify(Fixtures.peakListTable(spark, lists, 2))
+                .spectra().collectAsList();
+        assertEquals(lists.size(), rows.size());
+        int refused = 0;
+        for (Row row : rows) {
+            Fixtures.PeakListData list = lists.stream().filter(l -> l.id().equals(row.getString(0))).findFirst()
+                    .orElseThrow();
+            PeakList peaks = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
+            double[] window = library.search.candidateWindow(peaks);
+            Candidates candidates;
+            try {
+                candidates = library.candidates(window[0], window[1]);
+                library.search.run(peaks, candidates.catalog());
+            } catch (IdentificationException e) {
+                refused++;
+                assertEquals(e.code(), row.getAs("failure_code"));
+                assertEquals(e.getMessage(), row.getAs("failure"));
+                for (int field = 1; field < 14; field++) {
+                    assertTrue(row.isNullAt(field), "field " + field + " of a refused spectrum");
+                }
+                continue;
+            }
+            assertTrue(row.isNullAt(14), list.id());
+            compare(library, candidates, list, row);
+        }
+        assertEquals(1, refused);
+        assertEquals("far-uv", rows.stream().filter(r -> !r.isNullAt(14)).findFirst().orElseThrow().getString(0));
+        assertEquals(1, refused);
+    }
+
     /** @return the matched peaks */
     private static int compare(Library library, Candidates candidates, Fixtures.PeakListData list, Row row) {
         PeakList peaks = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
@@ -146,11 +195,23 @@ class SurveyIdentificationTest {
         assertEquals(id.count(Identification.MATCHED), row.getInt(2));
         assertEquals(id.count(Identification.AMBIGUOUS), row.getInt(3));
         assertEquals(id.count(Identification.UNEXPLAINED), row.getInt(4));
-        ShiftSearch.Fit v = report.velocity().orElseThrow();
-        assertEquals(v.velocity(), row.getDouble(5), where);
-        assertEquals(v.velocityUncertainty(), row.getDouble(6), where);
-        assertEquals(v.matches(), row.getInt(7));
-        assertTrue(row.isNullAt(8) && row.isNullAt(9) && row.isNullAt(10), "no offset searched");
+        ShiftSearch.Fit v = report.velocity().orElse(null);
+        if (v == null) {
+            assertTrue(row.isNullAt(5) && row.isNullAt(6) && row.isNullAt(7), "no velocity searched");
+        } else {
+            assertEquals(v.velocity(), row.getDouble(5), where);
+            assertEquals(v.velocityUncertainty(), row.getDouble(6), where);
+            assertEquals(v.matches(), row.getInt(7));
+        }
+        ShiftSearch.Fit o = report.offset().orElse(null);
+        if (o == null) {
+            assertTrue(row.isNullAt(8) && row.isNullAt(9) && row.isNullAt(10), "no offset searched");
+        } else {
+            assertTrue(o.matches() >= 2, where + ": the test needs an offset fit of several lines");
+            assertEquals(o.value() * 1e9, row.getDouble(8), where);
+            assertEquals(o.uncertainty() * 1e9, row.getDouble(9), where);
+            assertEquals(o.matches(), row.getInt(10));
+        }
         List<String> missing = new ArrayList<>();
         for (int j : id.missingStrongLines()) {
             missing.add(lines.species(j).notation() + " " + lines.label(j));
@@ -188,6 +249,8 @@ class SurveyIdentificationTest {
                     r.isNullAt(2) ? Double.NaN : r.getDouble(2));
             assertEquals(e.uncertainty().isPresent() ? e.uncertainty().getAsDouble() : Double.NaN,
                     r.isNullAt(3) ? Double.NaN : r.getDouble(3));
+            assertEquals(e.quantity().unit(), r.getString(4));
+            assertEquals(e.lines(), r.getString(5));
             assertEquals(e.note(), r.getString(6));
         }
         return id.count(Identification.MATCHED);
