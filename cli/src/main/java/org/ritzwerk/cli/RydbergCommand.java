@@ -238,7 +238,7 @@ final class RydbergCommand implements Runnable {
             if ((long) map.size() * map.size() * map.size() * (steps + 1) > 2e9) {
                 spec.commandLine().getErr().println("note: " + map.size() + " basis states at " + (steps + 1)
                         + " fields; each field takes an eigen-decomposition (time grows as the cube of the basis):"
-                        + " expect about 0.1 s per field and core at 1,000 states");
+                        + " expect about 0.05 s per field and core at 1,000 states");
                 spec.commandLine().getErr().flush();
             }
             double[] fields = new double[steps + 1];
