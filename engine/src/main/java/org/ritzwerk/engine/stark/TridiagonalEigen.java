@@ -104,35 +104,7 @@ final class TridiagonalEigen {
      * @throws ArithmeticException when the algorithm fails (LAPACK's INFO &ne; 0)
      */
     static double[] eigenvaluesAndShares(double[] diagonal, double[] offDiagonal, double[] tracked, double[] shares) {
-        int n = diagonal.length;
-        double[] e = new double[n];
-        System.arraycopy(offDiagonal, 0, e, 0, n - 1);
-        double[] w = new double[n];
-        double[] z = new double[n * n];
-        int[] support = new int[2 * n];
-        double[] work = new double[18 * n];
-        int[] iwork = new int[10 * n];
-        Object found = holder(0);
-        Object info = holder(0);
-        try {
-            DSTEMR.invoke(LAPACK, "V", "A", n, diagonal, e, 0.0, 0.0, 0, 0, found, w, z, n, n, support,
-                    NEW_BOOLEAN.invoke(true), work, work.length, iwork, iwork.length, info);
-        } catch (Throwable t) {
-            throw rethrow("DSTEMR", t);
-        }
-        check("DSTEMR", value(info));
-        if (value(found) != n) {
-            throw new ArithmeticException("DSTEMR found " + value(found) + " of " + n + " eigenvalues");
-        }
-        for (int i = 0; i < n; i++) {
-            double overlap = 0;
-            int column = i * n;
-            for (int k = 0; k < n; k++) {
-                overlap += z[column + k] * tracked[k];
-            }
-            shares[i] = overlap * overlap;
-        }
-        return w;
+        return dstemr(diagonal, offDiagonal, tracked, -1, -1, shares);
     }
 
     /**
@@ -156,8 +128,28 @@ final class TridiagonalEigen {
             throw new IllegalArgumentException("eigenvalue indices must satisfy 0 <= first <= last < " + n + ", got "
                     + first + " to " + last);
         }
-        int k = last - first + 1;
-        double[] d = diagonal.clone();
+        double[] shares = new double[last - first + 1];
+        dstemr(diagonal.clone(), offDiagonal, tracked, first, last, shares);
+        return shares;
+    }
+
+    /**
+     * DSTEMR with eigenvectors, every eigenpair ({@code RANGE = 'A'}, first and last -1) or those of
+     * the indices first to last ({@code RANGE = 'I'}), and each vector's share of tracked.
+     *
+     * @param d           the diagonal, n values, destroyed
+     * @param offDiagonal the first off-diagonal, n - 1 values, not changed
+     * @param tracked     a vector of n values in the tridiagonal basis
+     * @param first       the lowest index wanted (0-based), or -1 for all
+     * @param last        the highest index wanted, or -1 for all
+     * @param shares      filled with {@code (tracked . v_i)^2} for the vectors found, in order
+     * @return the eigenvalues, ascending (the first {@code shares.length} are those found)
+     */
+    private static double[] dstemr(double[] d, double[] offDiagonal, double[] tracked, int first, int last,
+            double[] shares) {
+        int n = d.length;
+        boolean all = first < 0;
+        int k = all ? n : last - first + 1;
         double[] e = new double[n];
         System.arraycopy(offDiagonal, 0, e, 0, n - 1);
         double[] w = new double[n];
@@ -168,17 +160,18 @@ final class TridiagonalEigen {
         Object found = holder(0);
         Object info = holder(0);
         try {
-            DSTEMR.invoke(LAPACK, "V", "I", n, d, e, 0.0, 0.0, first + 1, last + 1, found, w, z, n, k, support,
-                    NEW_BOOLEAN.invoke(true), work, work.length, iwork, iwork.length, info);
+            DSTEMR.invoke(LAPACK, "V", all ? "A" : "I", n, d, e, 0.0, 0.0, all ? 0 : first + 1, all ? 0 : last + 1,
+                    found, w, z, n, k, support, NEW_BOOLEAN.invoke(true), work, work.length, iwork, iwork.length,
+                    info);
         } catch (Throwable t) {
             throw rethrow("DSTEMR", t);
         }
         check("DSTEMR", value(info));
         if (value(found) != k) {
-            throw new ArithmeticException("DSTEMR found " + value(found) + " of the " + k + " eigenvalues "
-                    + (first + 1) + " to " + (last + 1));
+            throw new ArithmeticException(all ? "DSTEMR found " + value(found) + " of " + n + " eigenvalues"
+                    : "DSTEMR found " + value(found) + " of the " + k + " eigenvalues " + (first + 1) + " to "
+                    + (last + 1));
         }
-        double[] shares = new double[k];
         for (int i = 0; i < k; i++) {
             double overlap = 0;
             int column = i * n;
@@ -187,7 +180,7 @@ final class TridiagonalEigen {
             }
             shares[i] = overlap * overlap;
         }
-        return shares;
+        return w;
     }
 
     /**
