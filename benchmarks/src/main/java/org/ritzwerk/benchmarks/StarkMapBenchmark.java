@@ -64,10 +64,7 @@ public class StarkMapBenchmark {
     public void setUp() {
         map = StarkMap.builder(RubidiumFixture.rubidium()).projection(1).principalRange(60, nMax).build()
                 .withThreads(threads);
-        fieldValues = new double[fields];
-        for (int i = 0; i < fields; i++) {
-            fieldValues[i] = 500.0 * (i + 1) / fields;
-        }
+        fieldValues = fieldGrid(fields);
         reference = org.ritzwerk.atom.State.of(61, 2, 5);
         windowedMap = map.withShareWindowHz(-windowGHz * 1e9, windowGHz * 1e9);
     }
@@ -94,5 +91,17 @@ public class StarkMapBenchmark {
     @Benchmark
     public StarkMapResult naiveDense() {
         return map.withThreads(1).solveDense(fieldValues, reference);
+    }
+
+    /**
+     * @param fields how many
+     * @return the fields of both Stark-map benchmarks: 500 / fields to 500 V/m in equal steps
+     */
+    static double[] fieldGrid(int fields) {
+        double[] values = new double[fields];
+        for (int i = 0; i < fields; i++) {
+            values[i] = 500.0 * (i + 1) / fields;
+        }
+        return values;
     }
 }

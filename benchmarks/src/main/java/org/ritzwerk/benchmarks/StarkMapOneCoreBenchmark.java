@@ -57,10 +57,7 @@ public class StarkMapOneCoreBenchmark {
     @Setup
     public void setUp() {
         map = StarkMap.builder(RubidiumFixture.rubidium()).projection(1).principalRange(60, nMax).build();
-        fieldValues = new double[fields];
-        for (int i = 0; i < fields; i++) {
-            fieldValues[i] = 500.0 * (i + 1) / fields;
-        }
+        fieldValues = StarkMapBenchmark.fieldGrid(fields);
         oneField = new double[] {250.0};
         reference = org.ritzwerk.atom.State.of(61, 2, 5);
         windowedMap = map.withShareWindowHz(-windowGHz * 1e9, windowGHz * 1e9);
