@@ -5,6 +5,9 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
 import java.util.concurrent.TimeUnit;
 import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.sql.Dataset;
@@ -46,7 +49,7 @@ import org.ritzwerk.refdata.DataContext;
 
 /**
  * Throughput of the Spark operations in local mode on 1 and 2 cores against the plain library on
- * one thread over the same data, in one run: identification of {@code lists} peak lists of
+ * as many threads over the same data, in one run: identification of {@code lists} peak lists of
  * {@code peaks} peaks (H I and He II multiplets, n up to 30, 360 to 710 nm, 5 sigma) and synthesis
  * of {@code scenes} spectra (H I, 2000 pixels, per-row seeds). Each measurement is one pass over
  * the whole table (single-shot time); the inputs are cached in Spark before the measurement, so it
@@ -54,8 +57,9 @@ import org.ritzwerk.refdata.DataContext;
  * every output row to Spark's no-op sink (counting one column would let Spark skip making the
  * others). The identification baseline computes what an output row holds (the identification, the
  * matched lines' positions, the missing strong lines, the species' presence);
- * {@code identifyLibrarySearchOnly} is the search alone, for the engine's share. Per-core overhead
- * = Spark local[1] / library; scaling = local[1] / local[2].
+ * {@code identifyLibrarySearchOnly} is the search alone (one thread), for the engine's share.
+ * Per-core overhead = Spark local[1] / library on one thread; Spark's scaling = local[1] /
+ * local[2], beside the library's own scaling from one thread to two on the same machine.
  *
  * <p>Not a test; run it with {@code spark/benchmark} (see that script). Spark needs the JVM
  * options of the module's surefire configuration, given to the forks here.
@@ -102,6 +106,8 @@ public class SparkThroughputBenchmark {
     private DataContext data;
     private SurveyIdentification identification;
     private SurveySynthesis synthesis;
+    /** The library baselines' threads, as many as Spark's cores. */
+    private ExecutorService pool;
 
     @Setup(Level.Trial)
     public void setUp() {
@@ -144,6 +150,7 @@ public class SparkThroughputBenchmark {
         catalog = builder.build().catalog();
         search = IdentificationSearch.of(Identifier.of(Tolerance.parse("5 sigma")));
         identification = SurveyIdentification.of(IdentificationParameters.inWindow(species, List.of(), 360, 710));
+        pool = Executors.newFixedThreadPool(cores);
         synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 2000).withModel("qed", 30));
     }
 
@@ -174,40 +181,74 @@ public class SparkThroughputBenchmark {
 
     @TearDown(Level.Trial)
     public void tearDown() {
+        pool.shutdownNow();
         spark.stop();
     }
 
     /**
-     * Baseline: the library on one thread, one peak list after another, computing what a row of
-     * the Spark operation's output holds: the identification, each matched line's position in the
-     * peaks' unit, the missing strong lines and the species' presence (the identify command's
-     * report).
+     * Baseline: the library on {@code cores} threads (the Spark master's core count), each taking
+     * a contiguous share of the peak lists one after another, computing what a row of the Spark
+     * operation's output holds: the identification, each matched line's position in the peaks'
+     * unit, the missing strong lines and the species' presence (the identify command's report).
+     * On two cores its time against one core is what the machine itself gives two threads of this
+     * work (the garbage collector and the JIT compiler share the same cores), the ceiling for
+     * Spark's scaling.
      */
     @Benchmark
-    public double identifyLibrary() {
+    public double identifyLibrary() throws Exception {
+        return onThreads(peakLists.size(), (from, to) -> {
+            double total = 0;
+            for (Fixtures.PeakListData list : peakLists.subList(from, to)) {
+                total += identifyOne(list);
+            }
+            return total;
+        });
+    }
+
+    private double identifyOne(Fixtures.PeakListData list) {
+        PeakList p = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
+        IdentificationSearch.Report report = search.run(p, catalog);
+        Identification id = report.identification();
+        LineCatalog lines = report.lines();
+        int n = list.nm().length;
+        double[] matched = new double[n];
+        int m = 0;
+        for (int i = 0; i < n; i++) {
+            int j = id.line(i);
+            if (j >= 0) {
+                matched[m++] = lines.wavelength(j);
+            }
+        }
+        double[] converted = new double[m];
+        SpectralArrays.convert(Arrays.copyOf(matched, m), Unit.METRE, Medium.vacuum(), Unit.NANOMETRE,
+                Medium.vacuum(), converted);
+        double total = m == 0 ? 0 : converted[0];
+        total += id.missingStrongLines().length;
+        for (Identification.SpeciesPresence s : id.speciesPresence()) {
+            total += s.matchedByChance();
+        }
+        return total;
+    }
+
+    /** Work on the rows from (inclusive) to (exclusive); returns a sum that keeps the work alive. */
+    private interface Share {
+        double run(int from, int to);
+    }
+
+    /**
+     * Splits rows 0 to n into {@code cores} contiguous shares, one per thread of the pool, and adds
+     * their results: the library's own parallelism at Spark's core count.
+     */
+    private double onThreads(int n, Share share) throws Exception {
+        List<Future<Double>> parts = new ArrayList<>(cores);
+        for (int t = 0; t < cores; t++) {
+            int from = (int) ((long) n * t / cores);
+            int to = (int) ((long) n * (t + 1) / cores);
+            parts.add(pool.submit(() -> share.run(from, to)));
+        }
         double total = 0;
-        for (Fixtures.PeakListData list : peakLists) {
-            PeakList p = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
-            IdentificationSearch.Report report = search.run(p, catalog);
-            Identification id = report.identification();
-            LineCatalog lines = report.lines();
-            int n = list.nm().length;
-            double[] matched = new double[n];
-            int m = 0;
-            for (int i = 0; i < n; i++) {
-                int j = id.line(i);
-                if (j >= 0) {
-                    matched[m++] = lines.wavelength(j);
-                }
-            }
-            double[] converted = new double[m];
-            SpectralArrays.convert(Arrays.copyOf(matched, m), Unit.METRE, Medium.vacuum(), Unit.NANOMETRE,
-                    Medium.vacuum(), converted);
-            total += m == 0 ? 0 : converted[0];
-            total += id.missingStrongLines().length;
-            for (Identification.SpeciesPresence s : id.speciesPresence()) {
-                total += s.matchedByChance();
-            }
+        for (Future<Double> part : parts) {
+            total += part.get();
         }
         return total;
     }
@@ -229,21 +270,23 @@ public class SparkThroughputBenchmark {
         identification.identify(peakTable).spectra().write().format("noop").mode("overwrite").save();
     }
 
-    /** Baseline: the library on one thread, one scene after another. */
+    /** Baseline: the library on {@code cores} threads, each taking a contiguous share of the scenes. */
     @Benchmark
-    public double synthesiseLibrary() {
-        double total = 0;
+    public double synthesiseLibrary() throws Exception {
         PixelGrid grid = PixelGrid.linear(640, 670, 2000);
         Species h = Species.parse("H I");
         HydrogenLikeModel model = HydrogenLikeModel.of(data.nucleus(h), Tier.QED);
-        for (int k = 0; k < scenes; k++) {
-            double[] counts = Scene.builder(grid).medium(Medium.air()).instrument(Instrument.ofResolvingPower(8000))
-                    .naturalWidths(false).renderer(Renderer.AUTO).temperature(6000.0 + 10 * k).nMax(30)
-                    .velocity((k % 100 - 50) * 1e3).peakCounts(10_000).hydrogenLike(h, model, 1.0).noise(0, k)
-                    .build().render(1).counts();
-            total += counts[counts.length / 2];
-        }
-        return total;
+        return onThreads(scenes, (from, to) -> {
+            double total = 0;
+            for (int k = from; k < to; k++) {
+                double[] counts = Scene.builder(grid).medium(Medium.air())
+                        .instrument(Instrument.ofResolvingPower(8000)).naturalWidths(false).renderer(Renderer.AUTO)
+                        .temperature(6000.0 + 10 * k).nMax(30).velocity((k % 100 - 50) * 1e3).peakCounts(10_000)
+                        .hydrogenLike(h, model, 1.0).noise(0, k).build().render(1).counts();
+                total += counts[counts.length / 2];
+            }
+            return total;
+        });
     }
 
     /** The Spark operation over the cached scenes, every column of every spectrum written (to the no-op sink). */
