@@ -21,6 +21,7 @@ import org.ritzwerk.engine.calibrate.LampMatcher;
 import org.ritzwerk.engine.calibrate.LampSet;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.CalibrationFiles;
+import org.ritzwerk.refdata.DataLines;
 import org.ritzwerk.refdata.DataRegistry;
 import org.ritzwerk.refdata.OutputFiles;
 import org.ritzwerk.refdata.SpectrumFiles;
@@ -62,8 +63,21 @@ final class CalibrateCommand implements Callable<Integer> {
     Path spectrumFile;
 
     @Option(names = "--lamp", paramLabel = "SPECIES",
-            description = "The lamp's species, e.g. \"Ne I\" or \"Ne I,Ar I\": their built-in lamp sets.")
+            description = "The lamp's species, e.g. \"Ne I\" or \"Ne I,Ar I\": their built-in lamp sets; for a "
+                    + "species with a level list and no lamp set (\"He I\"), the Ritz lines of its levels ranked by "
+                    + "g_u A.")
     List<String> lamps = new ArrayList<>();
+
+    @Option(names = "--resolving-power", paramLabel = "R",
+            description = "The spectrometer's resolving power lambda / FWHM, roughly: lamp lines of one gas closer "
+                    + "than half the FWHM are merged into one blend at their intensity-weighted centroid. Given, it "
+                    + "applies to every lamp line; by default only lamps built from a level list are merged, at "
+                    + "R = " + DEFAULT_LEVEL_LAMP_RESOLVING_POWER + " (their fine-structure components are listed "
+                    + "one by one).")
+    Double resolvingPower;
+
+    /** The resolving power at which a lamp built from levels is blended when none is given (a compact spectrometer's). */
+    static final double DEFAULT_LEVEL_LAMP_RESOLVING_POWER = 5000;
 
     @Option(names = "--lines", paramLabel = "SET",
             description = "A line list of your own (file) or a data set id, with relative intensities. Repeatable.")
@@ -201,6 +215,10 @@ final class CalibrateCommand implements Callable<Integer> {
             parseDegree();
         }
         OptionRules.range("--threshold", threshold, 0, false, 1e12, "a signal-to-noise ratio above 0 (e.g. 5)");
+        if (resolvingPower != null) {
+            OptionRules.range("--resolving-power", resolvingPower, 1, true, 1e7, "a resolving power from 1 to 1e7"
+                    + " (e.g. 3000)");
+        }
         OptionRules.range("--tolerance", tolerance, 0, false, 1e9, "a distance in pixels above 0 (e.g. 3)");
         OptionRules.range("--min-matched", minMatched, 0, true, 1, "a fraction from 0 to 1 (e.g. 0.6)");
         OptionRules.range("--clip", clip, 1, true, 1e12, "a number of standard deviations of at least 1 (e.g. 3.5)");
@@ -290,21 +308,43 @@ final class CalibrateCommand implements Callable<Integer> {
             throw new OptionException("give the lamp: --lamp \"Ne I\" (built-in sets) or --lines FILE");
         }
         DataRegistry registry = data.context().registry();
+        LampSet fromLevels = null;
         List<LineList> lists = new ArrayList<>();
         for (String option : lamps) {
             for (String text : option.split(",")) {
                 Species species = Species.parse(text.strip());
-                if (registry.find(DataKind.LAMP_LINES, species).isEmpty()) {
-                    throw new OptionException("--lamp: no built-in lamp set for " + species.notation()
+                if (!registry.find(DataKind.LAMP_LINES, species).isEmpty()) {
+                    lists.add(data.context().lampLines(species));
+                } else if (data.context().levelList(species).isPresent()) {
+                    LampSet rated = DataLines.lamp(data.context(), species, solutionMedium);
+                    double r = resolvingPower == null ? DEFAULT_LEVEL_LAMP_RESOLVING_POWER : resolvingPower;
+                    int components = rated.size();
+                    rated = rated.blendedAt(r);
+                    spec.commandLine().getErr().println("note: " + species.notation() + ": no lamp set; using the "
+                            + components + " Ritz lines of " + rated.setIds() + " ranked by g_u A (equally populated"
+                            + " upper states; " + rated.withoutRate() + " lines without an A value and "
+                            + rated.outsideMedium() + " outside the " + solutionMedium.label() + " model's range left"
+                            + " out), as " + rated.size() + " lines at resolving power " + OptionRules.show(r));
+                    fromLevels = fromLevels == null ? rated : fromLevels.plus(rated);
+                } else {
+                    throw new OptionException("--lamp: no built-in lamp set or level list for " + species.notation()
                             + "; see `ritzwerk data`, or give your own list with --lines");
                 }
-                lists.add(data.context().lampLines(species));
             }
         }
         for (String set : lineSets) {
             lists.add(LineSets.load(data.context(), set, "lamp set"));
         }
-        LampSet lamp = LampSet.of(lists, solutionMedium);
+        LampSet lamp = lists.isEmpty() ? null : LampSet.of(lists, solutionMedium);
+        if (lamp != null && lamp.outsideMedium() > 0) {
+            spec.commandLine().getErr().println("note: " + lamp.outsideMedium() + " lines of " + lamp.setIds()
+                    + " lie outside the range of the " + solutionMedium.label() + " model (far ultraviolet or"
+                    + " infrared) and are left out; " + lamp.size() + " lines are used");
+        }
+        if (lamp != null && resolvingPower != null) {
+            lamp = lamp.blendedAt(resolvingPower);
+        }
+        lamp = lamp == null ? fromLevels : fromLevels == null ? lamp : lamp.plus(fromLevels);
         if (minStrength == null) {
             return lamp;
         }
@@ -332,18 +372,27 @@ final class CalibrateCommand implements Callable<Integer> {
         w.printf(Locale.ROOT, "Coverage: lines from pixel %.1f to %.1f, %.0f %% of the detector%n",
                 calibration.lowestUsedPixel(), calibration.highestUsedPixel(), 100 * calibration.coverage());
         w.println();
-        w.printf(Locale.ROOT, "%8s %8s %-28s %14s %11s %9s %s%n", "pixel", "+-", "line", "solution nm", "resid nm",
-                "resid px", "");
         LampMatch match = calibration.match();
+        LampMatch saturatedPairs = calibration.saturatedPairs();
+        // The line column is as wide as its longest label (28 at least; blends of level lists run longer).
+        int width = 28;
         for (int i = 0; i < solution.size(); i++) {
-            w.printf(Locale.ROOT, "%8.3f %8.3f %-28s %14.5f %11.5f %9.4f %s%n", solution.pixel(i),
+            width = Math.max(width, calibration.pairLabel(i).length());
+        }
+        for (int i = 0; i < saturatedPairs.size(); i++) {
+            width = Math.max(width, calibration.saturatedPairLabel(i).length());
+        }
+        String row = "%8.3f %8.3f %-" + width + "s %14.5f %11.5f %9.4f %s%n";
+        w.printf(Locale.ROOT, "%8s %8s %-" + width + "s %14s %11s %9s %s%n", "pixel", "+-", "line", "solution nm",
+                "resid nm", "resid px", "");
+        for (int i = 0; i < solution.size(); i++) {
+            w.printf(Locale.ROOT, row, solution.pixel(i),
                     match.pixelSigma(i), calibration.pairLabel(i), solution.wavelengthAt(solution.pixel(i)),
                     solution.residualNm(i), solution.residualPixels(i), pairNote(solution, i));
         }
-        LampMatch saturatedPairs = calibration.saturatedPairs();
         for (int i = 0; i < saturatedPairs.size(); i++) {
             double p = saturatedPairs.pixel(i);
-            w.printf(Locale.ROOT, "%8.3f %8.3f %-28s %14.5f %11.5f %9.4f %s%n", p, saturatedPairs.pixelSigma(i),
+            w.printf(Locale.ROOT, row, p, saturatedPairs.pixelSigma(i),
                     calibration.saturatedPairLabel(i), solution.wavelengthAt(p), calibration.saturatedResidualNm(i),
                     calibration.saturatedResidualPixels(i), "saturated, not fitted");
         }

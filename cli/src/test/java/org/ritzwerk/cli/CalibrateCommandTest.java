@@ -222,7 +222,7 @@ class CalibrateCommandTest {
         assertTrue(strength.err().contains("--min-strength: unknown strength 'bright'; known: strong, medium, weak"),
                 strength.err());
         assertTrue(CliTest.run("calibrate", spectrum.toString(), "--lamp", "Xe II").err()
-                .contains("no built-in lamp set for Xe II"));
+                .contains("no built-in lamp set or level list for Xe II"));
     }
 
     @Test

@@ -54,6 +54,59 @@ class HeliumCommandsTest {
         assertFalse(ions.out().contains("uncertainty_nm"), ions.out());
     }
 
+    /**
+     * A helium lamp calibrated with the Ritz lines of the level list ({@code --lamp "He I"}: no
+     * lamp set, so the lines of levels-he-i ranked by g_u A, fine-structure components merged at
+     * the default resolving power): the solution recovers the invented dispersion 380 + 0.1 p -
+     * 2e-6 p^2 nm (air) of the synthetic exposure to 0.15 pixel and three stated standard
+     * uncertainties between its first and last fitted line (RMS 0.07 pixel), with the triplet multiplets (587.6, 706.5, 388.9 nm) among its pairs. The level list
+     * holds far-ultraviolet and far-infrared lines too, which an air solution cannot take: they
+     * are left out with a note, not refused, also when the list is given as {@code --lines}.
+     */
+    @Test
+    void aHeliumLampIsCalibratedWithTheLevelListsRitzLines(@TempDir Path dir) throws IOException {
+        Path spectrum = dir.resolve("he-lamp.csv");
+        CliTest.Run synth = CliTest.run("synth", "--species", "He I", "--dispersion", "380,0.1,-2e-6", "--pixels",
+                "4096", "--medium", "air", "--temperature", "30000", "--resolving-power", "3000", "--read-noise", "3",
+                "--seed", "4", "--out", spectrum.toString());
+        assertEquals(0, synth.code(), synth.err());
+        Path calibration = dir.resolve("calibration.json");
+        CliTest.Run run = CliTest.run("calibrate", spectrum.toString(), "--lamp", "He I", "--out",
+                calibration.toString());
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.err().matches("(?s)note: He I: no lamp set; using the \\d+ Ritz lines of \\[levels-he-i\\] "
+                + "ranked by g_u A .* left out\\), as \\d+ lines at resolving power 5000\\R"), run.err());
+        assertTrue(run.out().contains("He I 1s2p 3P2 - 1s3d 3D3 (+5 blended)"), run.out());
+        assertTrue(run.out().contains("He I 1s2p 3P2 - 1s3s 3S1 (+2 blended)"), run.out());
+        CliTest.Run list = CliTest.run("calibrate", spectrum.toString(), "--lines", "lines-he-i");
+        assertEquals(0, list.code(), list.err());
+        assertTrue(list.err().matches("(?s)note: \\d+ lines of \\[lines-he-i\\] lie outside the range of the air "
+                + "model.*"), list.err());
+        org.ritzwerk.engine.calibrate.DispersionSolution solution =
+                org.ritzwerk.refdata.CalibrationFiles.read(calibration).solution();
+        org.ritzwerk.data.CalibrationRecord record = org.ritzwerk.refdata.CalibrationFiles.readRecord(calibration);
+        double first = Double.POSITIVE_INFINITY;
+        double last = Double.NEGATIVE_INFINITY;
+        for (org.ritzwerk.data.CalibrationRecord.FittedLine line : record.lines()) {
+            first = Math.min(first, line.pixel());
+            last = Math.max(last, line.pixel());
+        }
+        assertTrue(record.lines().size() >= 8 && last - first > 3000, record.lines().size() + " lines, pixels "
+                + first + " to " + last);
+        for (int s = 0; s <= 100; s++) {
+            double p = first + (last - first) * s / 100;
+            double truth = 380 + 0.1 * p - 2e-6 * p * p;
+            double perPixel = 0.1 - 4e-6 * p;
+            // Within 0.15 pixel and three of the solution's own standard uncertainties: the weak
+            // lines at the blue end (S/N 10 to 20) are off by up to 2.5 of their centroid
+            // uncertainties here, which bends the quadratic by about 0.1 pixel near 706 nm.
+            double error = Math.abs(solution.wavelengthAt(p) - truth);
+            assertTrue(error < 0.15 * perPixel, "pixel " + p + ": " + error / perPixel + " px");
+            assertTrue(error < 3 * solution.wavelengthSigmaAt(p), "pixel " + p + ": " + error / solution
+                    .wavelengthSigmaAt(p) + " stated standard uncertainties");
+        }
+    }
+
     @Test
     void heliumIsSynthesisedAndItsLinesIdentified(@TempDir Path dir) throws IOException {
         Path truth = dir.resolve("truth.csv");

@@ -4,13 +4,17 @@ import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.calibrate.LampSet;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.lines.LineSources;
 import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.ritz.RitzLines;
+import org.ritzwerk.medium.Medium;
 
 /**
  * Line sources for the engine's {@link org.ritzwerk.engine.lines.LineQuery} from a
@@ -85,6 +89,32 @@ public final class DataLines {
         RitzLines job = RitzLines.defaults().withLsRules(true);
         Optional<LineList> companion = context.transitionProbabilities(species);
         return companion.isPresent() ? job.withEinsteinA(companion.get()) : job;
+    }
+
+    /**
+     * The lamp lines of one gas: its lamp set of highest precedence ({@link DataContext#lampLines})
+     * where the context has one, else, for a species with a level list (He I), the Ritz lines of
+     * its levels under the E1 and LS rules ({@link #ritzLines}) ranked by g_u A
+     * ({@link LampSet#ofRates}; lines without an A, such as intercombination lines, left out and
+     * counted in {@link LampSet#withoutRate()}). Lines the medium's model cannot take are left out
+     * and counted in {@link LampSet#outsideMedium()}.
+     *
+     * @param context where the data comes from
+     * @param species the lamp's gas, e.g. {@code Ne I} or {@code He I}
+     * @param medium  the medium of the calibration's wavelengths
+     * @return the lamp
+     * @throws ReferenceDataException ({@code unknown-data-set}) when the context has neither a lamp
+     *         set nor a level list for the species
+     */
+    public static LampSet lamp(DataContext context, Species species, Medium medium) {
+        Objects.requireNonNull(context, "context");
+        Objects.requireNonNull(species, "species");
+        if (!context.registry().find(DataKind.LAMP_LINES, species).isEmpty()
+                || context.levelList(species).isEmpty()) {
+            return LampSet.of(List.of(context.lampLines(species)), medium);
+        }
+        RitzLevels levels = levels(context, species);
+        return LampSet.ofRates(LineSet.ofRitz(ritzLines(context, species).compute(levels)), medium);
     }
 
     /**

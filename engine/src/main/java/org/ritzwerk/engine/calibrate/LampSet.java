@@ -1,8 +1,10 @@
 package org.ritzwerk.engine.calibrate;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Objects;
+import java.util.function.IntToDoubleFunction;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LineList;
@@ -21,7 +23,11 @@ import org.ritzwerk.quantity.Unit;
  *
  * <p>Positions are converted from each list's unit and medium to nm in the requested medium with
  * {@link SpectralArrays#convert}; an uncertainty is scaled by the same factor. A line list with no
- * intensity for a line counts that line as intensity 1.
+ * intensity for a line counts that line as intensity 1. A line that the medium's model cannot
+ * take (in air, below 200 nm or beyond 2500 nm in vacuum, where no spectrometer working in air
+ * sees it: the far-ultraviolet resonance lines and the far-infrared lines between high levels of
+ * a set computed from levels) is left out and counted in {@link #outsideMedium()}, so that a
+ * caller can say so.
  *
  * <p>Immutable and thread-safe.
  */
@@ -33,22 +39,28 @@ public final class LampSet {
     private final List<String> setIds;
     /** Per line, its list's strength class, or null when the list gives none. */
     private final StrengthClass[] strength;
+    /** Lines of the lists left out because the medium's model cannot take their wavelength. */
+    private final int outsideMedium;
+    /** Lines left out of a lamp ranked by rate ({@link #ofRates}) because they carry none. */
+    private final int withoutRate;
 
     private LampSet(LampLines lines, List<String> labels, Species[] species, List<String> setIds,
-            StrengthClass[] strength) {
+            StrengthClass[] strength, int outsideMedium, int withoutRate) {
         this.lines = lines;
         this.labels = labels;
         this.species = species;
         this.setIds = setIds;
         this.strength = strength;
+        this.outsideMedium = outsideMedium;
+        this.withoutRate = withoutRate;
     }
 
     /**
      * @param lists  the lamp's line lists, at least one, each with a wavelength-like unit
      * @param medium the medium the calibration's wavelengths are to be in (air for the usual lamp tables)
      * @return the lines of all lists together, in list order
-     * @throws IllegalArgumentException when no list or no line is given, or a position cannot be
-     *         converted (the message names the set)
+     * @throws IllegalArgumentException when no list or no line is given, no line lies within the
+     *         medium's range, or a position cannot be converted (the message names the set)
      */
     public static LampSet of(List<LineList> lists, Medium medium) {
         Objects.requireNonNull(medium, "medium");
@@ -68,10 +80,16 @@ public final class LampSet {
         StrengthClass[] strength = new StrengthClass[total];
         List<String> ids = new ArrayList<>();
         int k = 0;
+        MediumException firstOutside = null;
         for (LineList list : lists) {
             ids.add(list.info().id());
-            double[] converted = SpectralArrays.wavelengths(list, Unit.NANOMETRE, medium);
-            for (int i = 0; i < converted.length; i++, k++) {
+            double[] converted = new double[list.size()];
+            MediumException outside = convert(list, medium, converted);
+            firstOutside = firstOutside == null ? outside : firstOutside;
+            for (int i = 0; i < converted.length; i++) {
+                if (Double.isNaN(converted[i])) {
+                    continue;
+                }
                 double listed = list.position(i);
                 nm[k] = converted[i];
                 intensity[k] = list.intensity(i).orElse(1);
@@ -82,13 +100,48 @@ public final class LampSet {
                 strength[k] = list.strength(i);
                 labels.add(list.species(i).notation() + " " + listed + " " + list.unit().symbol()
                         + (list.medium() == null ? "" : " " + list.medium().label()));
+                k++;
             }
         }
         if (total == 0) {
             throw new IllegalArgumentException("the lamp's line lists " + ids + " hold no lines");
         }
-        return new LampSet(LampLines.of(nm, intensity, allSigmas ? sigma : null, medium), List.copyOf(labels),
-                species, List.copyOf(ids), strength);
+        if (k == 0) {
+            throw new IllegalArgumentException("no line of the lamp's line lists " + ids + " lies within the range of "
+                    + medium.label() + " wavelengths (" + firstOutside.getMessage() + ")", firstOutside);
+        }
+        return new LampSet(LampLines.of(Arrays.copyOf(nm, k), Arrays.copyOf(intensity, k),
+                allSigmas ? Arrays.copyOf(sigma, k) : null, medium), List.copyOf(labels), Arrays.copyOf(species, k),
+                List.copyOf(ids), Arrays.copyOf(strength, k), total - k, 0);
+    }
+
+    /**
+     * Converts a list's positions to nm in {@code medium}, the whole list at once; when the
+     * medium's model refuses some line, line by line (the same arithmetic per element), with NaN
+     * for each line it refuses.
+     *
+     * @return the first refusal, or null when every line converted
+     */
+    private static MediumException convert(LineList list, Medium medium, double[] out) {
+        try {
+            double[] all = SpectralArrays.wavelengths(list, Unit.NANOMETRE, medium);
+            System.arraycopy(all, 0, out, 0, out.length);
+            return null;
+        } catch (MediumException e) {
+            MediumException first = null;
+            double[] one = new double[1];
+            for (int i = 0; i < out.length; i++) {
+                one[0] = list.position(i);
+                try {
+                    SpectralArrays.convert(one, list.unit(), list.medium(), Unit.NANOMETRE, medium, one);
+                    out[i] = one[0];
+                } catch (MediumException refused) {
+                    out[i] = Double.NaN;
+                    first = first == null ? refused : first;
+                }
+            }
+            return first;
+        }
     }
 
     /**
@@ -102,11 +155,41 @@ public final class LampSet {
      * @param lines  the lines, at least one
      * @param medium the medium the calibration's wavelengths are to be in
      * @return the lamp set, in the set's order
-     * @throws IllegalArgumentException when the set is empty or a line lies outside the medium's
-     *         range (naming the line)
+     * @throws IllegalArgumentException when the set is empty or no line lies within the medium's
+     *         range (lines outside it are left out and counted in {@link #outsideMedium()})
      */
     public static LampSet of(LineSet lines, Medium medium) {
         Objects.requireNonNull(lines, "lines");
+        return of(lines, medium, i -> lines.relativeIntensity(i).orElse(1), 0);
+    }
+
+    /**
+     * A lamp from lines that carry transition rates but no measured intensities, such as the Ritz
+     * lines of a level list with the A values of its companion list: each line's relative
+     * intensity is g_u A_ul, the photon rate from equally populated upper states (common
+     * practice for ranking the lines of a hot discharge; a real lamp's ratios depend on its gas
+     * pressure and current, so check them against your own lamp). Lines with no A or no upper
+     * weight (intercombination lines the rate model leaves out) are left out and counted in
+     * {@link #withoutRate()}; lines outside the medium's range as in {@link #of(LineSet, Medium)}.
+     *
+     * @param lines  the lines, at least one with an A value and an upper weight
+     * @param medium the medium the calibration's wavelengths are to be in
+     * @return the lamp set, in the set's order
+     * @throws IllegalArgumentException when no line has a rate, or none of those lies within the
+     *         medium's range
+     */
+    public static LampSet ofRates(LineSet lines, Medium medium) {
+        Objects.requireNonNull(lines, "lines");
+        LineSet rated = lines.filter(i -> lines.einsteinA(i).isPresent() && lines.upperWeight(i).isPresent());
+        if (rated.isEmpty()) {
+            throw new IllegalArgumentException("no line of the " + lines.size() + " lines has an Einstein A and an upper"
+                    + " statistical weight, which a lamp without intensities needs");
+        }
+        return of(rated, medium, i -> rated.upperWeight(i).getAsInt() * rated.einsteinA(i).getAsDouble(),
+                lines.size() - rated.size());
+    }
+
+    private static LampSet of(LineSet lines, Medium medium, IntToDoubleFunction intensityOf, int withoutRate) {
         Objects.requireNonNull(medium, "medium");
         int n = lines.size();
         if (n == 0) {
@@ -120,27 +203,157 @@ public final class LampSet {
         Species[] species = new Species[n];
         StrengthClass[] strength = new StrengthClass[n];
         List<String> ids = new ArrayList<>();
+        int k = 0;
+        MediumException firstOutside = null;
         for (int i = 0; i < n; i++) {
             double vacuum = lines.vacuumWavelengthMetres(i);
-            labels.add(lines.species(i).notation() + " " + lines.name(i));
-            try {
-                nm[i] = medium.fromVacuum(vacuum) * 1e9;
-            } catch (MediumException e) {
-                throw new IllegalArgumentException("lamp line " + labels.get(i) + ": " + e.getMessage(), e);
-            }
-            intensity[i] = lines.relativeIntensity(i).orElse(1);
-            allSigmas &= lines.vacuumWavelengthUncertaintyMetres(i).isPresent();
-            sigma[i] = lines.vacuumWavelengthUncertaintyMetres(i).orElse(0) * medium.slopeFromVacuum(vacuum) * 1e9;
-            species[i] = lines.species(i);
-            strength[i] = lines.strengthClass(i).orElse(null);
             LineSet.Source source = lines.source(i);
             String id = source.dataSet().map(DataSetInfo::id).orElse(source.model());
             if (!ids.contains(id)) {
                 ids.add(id);
             }
+            try {
+                nm[k] = medium.fromVacuum(vacuum) * 1e9;
+            } catch (MediumException e) {
+                firstOutside = firstOutside == null ? e : firstOutside;
+                continue;
+            }
+            labels.add(lines.species(i).notation() + " " + lines.name(i));
+            intensity[k] = intensityOf.applyAsDouble(i);
+            allSigmas &= lines.vacuumWavelengthUncertaintyMetres(i).isPresent();
+            sigma[k] = lines.vacuumWavelengthUncertaintyMetres(i).orElse(0) * medium.slopeFromVacuum(vacuum) * 1e9;
+            species[k] = lines.species(i);
+            strength[k] = lines.strengthClass(i).orElse(null);
+            k++;
         }
-        return new LampSet(LampLines.of(nm, intensity, allSigmas ? sigma : null, medium), List.copyOf(labels),
-                species, List.copyOf(ids), strength);
+        if (k == 0) {
+            throw new IllegalArgumentException("no line of the lamp's line set " + ids + " lies within the range of "
+                    + medium.label() + " wavelengths (" + firstOutside.getMessage() + ")", firstOutside);
+        }
+        return new LampSet(LampLines.of(Arrays.copyOf(nm, k), Arrays.copyOf(intensity, k),
+                allSigmas ? Arrays.copyOf(sigma, k) : null, medium), List.copyOf(labels), Arrays.copyOf(species, k),
+                List.copyOf(ids), Arrays.copyOf(strength, k), n - k, withoutRate);
+    }
+
+    /**
+     * The lines as a spectrometer of resolving power R sees them: lines of one species closer than
+     * half the instrument's FWHM (lambda / 2R, from the first line of a group) become one blend at
+     * their intensity-weighted centroid, with the summed intensity, the weighted uncertainty
+     * (sqrt(sum (w_i sigma_i)^2) / sum w_i) widened by the weighted spread of the components, the
+     * strongest class among them, and the label of the strongest component followed by
+     * {@code (+k blended)}. For sets computed from levels, which list every fine-structure
+     * component (He I 587.6 nm is six), so that the matcher finds one line where the spectrum
+     * shows one peak. Lines come out in rising wavelength.
+     *
+     * @param resolvingPower lambda / FWHM of the spectrometer, 1 to 1e7
+     * @return the blended set (this set's counts of lines left out are kept)
+     */
+    public LampSet blendedAt(double resolvingPower) {
+        if (!(resolvingPower >= 1 && resolvingPower <= 1e7)) {
+            throw new IllegalArgumentException("resolving power must be 1 to 1e7, got " + resolvingPower);
+        }
+        int n = size();
+        Integer[] order = new Integer[n];
+        for (int i = 0; i < n; i++) {
+            order[i] = i;
+        }
+        Arrays.sort(order, (a, b) -> Double.compare(lines.wavelength(a), lines.wavelength(b)));
+        double[] nm = new double[n];
+        double[] intensity = new double[n];
+        double[] sigma = new double[n];
+        List<String> outLabels = new ArrayList<>(n);
+        Species[] outSpecies = new Species[n];
+        StrengthClass[] outStrength = new StrengthClass[n];
+        int k = 0;
+        for (int start = 0; start < n;) {
+            int first = order[start];
+            double reach = lines.wavelength(first) * (1 + 0.5 / resolvingPower);
+            int end = start + 1;
+            while (end < n && lines.wavelength(order[end]) < reach && species[order[end]].equals(species[first])) {
+                end++;
+            }
+            double weight = 0;
+            double centroid = 0;
+            int strongest = first;
+            StrengthClass strength = this.strength[first];
+            for (int g = start; g < end; g++) {
+                int i = order[g];
+                // Equal weights where the lines carry no intensity (all zero): a plain mean.
+                double w = lines.intensity(i) > 0 ? lines.intensity(i) : 1e-300;
+                weight += w;
+                centroid += w * lines.wavelength(i);
+                strongest = lines.intensity(i) > lines.intensity(strongest) ? i : strongest;
+                StrengthClass c = this.strength[i];
+                strength = strength == null || (c != null && c.ordinal() < strength.ordinal()) ? c : strength;
+            }
+            centroid /= weight;
+            double variance = 0;
+            double spread = 0;
+            for (int g = start; g < end; g++) {
+                int i = order[g];
+                double w = (lines.intensity(i) > 0 ? lines.intensity(i) : 1e-300) / weight;
+                variance += w * w * lines.sigma(i) * lines.sigma(i);
+                double d = lines.wavelength(i) - centroid;
+                spread += w * d * d;
+            }
+            nm[k] = centroid;
+            double summed = 0;
+            for (int g = start; g < end; g++) {
+                summed += lines.intensity(order[g]);
+            }
+            intensity[k] = summed;
+            sigma[k] = Math.sqrt(variance + spread);
+            outLabels.add(end - start == 1 ? labels.get(first)
+                    : labels.get(strongest) + " (+" + (end - start - 1) + " blended)");
+            outSpecies[k] = species[first];
+            outStrength[k] = strength;
+            k++;
+            start = end;
+        }
+        return new LampSet(LampLines.of(Arrays.copyOf(nm, k), Arrays.copyOf(intensity, k),
+                lines.sigmasGiven() ? Arrays.copyOf(sigma, k) : null, lines.medium()), List.copyOf(outLabels),
+                Arrays.copyOf(outSpecies, k), setIds, Arrays.copyOf(outStrength, k), outsideMedium, withoutRate);
+    }
+
+    /**
+     * This lamp's lines followed by another's (for a lamp of several gases whose sets were made
+     * differently: a handbook list and Ritz lines ranked by rate). Uncertainties are kept only when
+     * both give them; the counts of lines left out add up.
+     *
+     * @param other lines in the same medium
+     * @return both together, this lamp's first
+     * @throws IllegalArgumentException when the media differ
+     */
+    public LampSet plus(LampSet other) {
+        Objects.requireNonNull(other, "other");
+        if (!lines.medium().equals(other.lines.medium())) {
+            throw new IllegalArgumentException("lamp sets in different media: " + lines.medium().label() + " and "
+                    + other.lines.medium().label());
+        }
+        int n = size();
+        int m = other.size();
+        double[] nm = new double[n + m];
+        double[] intensity = new double[n + m];
+        double[] sigma = new double[n + m];
+        for (int i = 0; i < n + m; i++) {
+            LampLines from = i < n ? lines : other.lines;
+            int j = i < n ? i : i - n;
+            nm[i] = from.wavelength(j);
+            intensity[i] = from.intensity(j);
+            sigma[i] = from.sigma(j);
+        }
+        boolean sigmas = lines.sigmasGiven() && other.lines.sigmasGiven();
+        List<String> allLabels = new ArrayList<>(labels);
+        allLabels.addAll(other.labels);
+        Species[] allSpecies = Arrays.copyOf(species, n + m);
+        System.arraycopy(other.species, 0, allSpecies, n, m);
+        StrengthClass[] allStrength = Arrays.copyOf(strength, n + m);
+        System.arraycopy(other.strength, 0, allStrength, n, m);
+        List<String> ids = new ArrayList<>(setIds);
+        other.setIds.stream().filter(id -> !ids.contains(id)).forEach(ids::add);
+        return new LampSet(LampLines.of(nm, intensity, sigmas ? sigma : null, lines.medium()), List.copyOf(allLabels),
+                allSpecies, List.copyOf(ids), allStrength, outsideMedium + other.outsideMedium,
+                withoutRate + other.withoutRate);
     }
 
     /**
@@ -185,7 +398,7 @@ public final class LampSet {
             }
         }
         return new LampSet(LampLines.of(nm, intensity, sigma, lines.medium()), List.copyOf(keptLabels), keptSpecies,
-                setIds, keptStrength);
+                setIds, keptStrength, outsideMedium, withoutRate);
     }
 
     /**
@@ -220,6 +433,19 @@ public final class LampSet {
      */
     public Species species(int i) {
         return species[i];
+    }
+
+    /**
+     * @return how many lines of the lists were left out because the medium's model cannot take
+     *         their wavelength (in air: below 200 nm or beyond 2500 nm in vacuum); 0 in vacuum
+     */
+    public int outsideMedium() {
+        return outsideMedium;
+    }
+
+    /** @return how many lines {@link #ofRates} left out for want of an A value or an upper weight */
+    public int withoutRate() {
+        return withoutRate;
     }
 
     /** @return the ids of the line lists, in order */

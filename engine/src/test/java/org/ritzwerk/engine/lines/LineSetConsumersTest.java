@@ -125,6 +125,51 @@ class LineSetConsumersTest {
         assertThrows(IllegalArgumentException.class, () -> LampSet.of(LineSet.empty(), Medium.air()));
     }
 
+    /**
+     * A list computed from levels holds lines no spectrometer in air sees: a far-ultraviolet
+     * resonance line (58.4 nm) and far-infrared lines between high levels (4 um, 3 mm). In air
+     * the lamp keeps the visible lines, in both paths, and counts the ones left out; in vacuum it
+     * keeps all. A list with no line in the air model's range is refused, naming the list.
+     */
+    @Test
+    void lampLinesOutsideTheAirModelAreLeftOutAndCounted() {
+        Species he = Species.parse("He I");
+        double[] vacuumNm = {58.4334, 501.7077, 4000.0, 587.7249, 3.2e6};
+        LineList mixed = list("mixed-he", he, vacuumNm);
+        LampSet air = LampSet.of(List.of(mixed), Medium.air());
+        assertEquals(2, air.size());
+        assertEquals(3, air.outsideMedium());
+        // Source: the air model itself, line by line (the lamp converts the same way).
+        assertEquals(Medium.air().fromVacuum(501.7077e-9) * 1e9, air.lines().wavelength(0), 1e-9);
+        assertEquals(Medium.air().fromVacuum(587.7249e-9) * 1e9, air.lines().wavelength(1), 1e-9);
+        assertEquals("He I 501.7077 nm vacuum", air.label(0));
+        LampSet fromSet = LampSet.of(LineSet.of(mixed), Medium.air());
+        assertEquals(2, fromSet.size());
+        assertEquals(3, fromSet.outsideMedium());
+        assertEquals(air.lines().wavelength(1), fromSet.lines().wavelength(1), 1e-12 * 600);
+        LampSet vacuum = LampSet.of(List.of(mixed), Medium.vacuum());
+        assertEquals(5, vacuum.size());
+        assertEquals(0, vacuum.outsideMedium());
+        // Leaving lines out of the selection by strength keeps the count.
+        assertEquals(3, air.atLeast(org.ritzwerk.data.StrengthClass.WEAK).outsideMedium());
+
+        LineList farOnly = list("far-only", he, new double[] {58.4334, 3.2e6});
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> LampSet.of(List.of(farOnly), Medium.air()));
+        assertTrue(e.getMessage().contains("far-only"), e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> LampSet.of(LineSet.of(farOnly), Medium.air()));
+    }
+
+    private static LineList list(String id, Species species, double[] vacuumNm) {
+        LineList.Builder b = LineList.builder(new org.ritzwerk.data.DataSetInfo(id,
+                org.ritzwerk.data.DataKind.LINES, id, "1", org.ritzwerk.data.Provenance.computedBy("test"),
+                List.of(species)), org.ritzwerk.quantity.Unit.NANOMETRE, Medium.vacuum(), "");
+        for (double nm : vacuumNm) {
+            b.add(species, nm, Double.NaN, 1.0, null, Double.NaN, null, null, null);
+        }
+        return b.build();
+    }
+
     @Test
     void sceneLinesFromALineSetMatchTheListPath() {
         LineList neon = Sources.neonInAir();
