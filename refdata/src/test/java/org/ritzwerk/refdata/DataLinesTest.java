@@ -18,6 +18,44 @@ import org.ritzwerk.quantity.Wavelength;
 /** Line sources from a data context: ions, alkali atoms and the built-in lamp lists through one query. */
 class DataLinesTest {
 
+    /**
+     * The lamp of a gas: its lamp set where one exists (Ne I, the same lines as the set read
+     * directly), else the Ritz lines of its level list ranked by g_u A (He I), the visible
+     * triplet 587.6 nm among them with weight 7 A; a species with neither is refused.
+     */
+    @Test
+    void aLampIsTheLampSetOrTheLevelListsRitzLines() {
+        DataContext data = DataContext.builtIn();
+        org.ritzwerk.engine.calibrate.LampSet neon = DataLines.lamp(data, Species.parse("Ne I"), Medium.air());
+        org.ritzwerk.engine.calibrate.LampSet direct = org.ritzwerk.engine.calibrate.LampSet.of(
+                List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
+        assertEquals(direct.size(), neon.size());
+        assertEquals(direct.setIds(), neon.setIds());
+        assertEquals(0, neon.withoutRate());
+
+        org.ritzwerk.engine.calibrate.LampSet helium = DataLines.lamp(data, Species.parse("He I"), Medium.air());
+        assertEquals(List.of("levels-he-i"), helium.setIds());
+        assertTrue(helium.outsideMedium() > 100, helium.outsideMedium() + " outside");
+        assertTrue(helium.withoutRate() > 0, helium.withoutRate() + " without A");
+        int found = -1;
+        for (int i = 0; i < helium.size(); i++) {
+            found = helium.label(i).equals("He I 1s2p 3P2 - 1s3d 3D3") ? i : found;
+        }
+        assertTrue(found >= 0, "587.6 nm 3D3 component");
+        // Source: lines-he-i's A of 1s3d 3D3 - 1s2p 3P2, times g_u = 7 (the level's 2J + 1).
+        LineList rates = data.lineList("lines-he-i");
+        double a = Double.NaN;
+        for (int i = 0; i < rates.size(); i++) {
+            if ("1s3d 3D3".equals(rates.upper(i)) && "1s2p 3P2".equals(rates.lower(i))) {
+                a = rates.einsteinA(i).orElseThrow();
+            }
+        }
+        assertEquals(7 * a, helium.lines().intensity(found), 1e-9 * a);
+        // 587.5618 nm in air (common practice: the He D3 line).
+        assertEquals(587.5618, helium.lines().wavelength(found), 5e-4);
+        assertThrows(ReferenceDataException.class, () -> DataLines.lamp(data, Species.parse("Xe II"), Medium.air()));
+    }
+
     @Test
     void ionsAtomsAndListsOfTheContextAnswerOneQuery() {
         DataContext data = DataContext.builtIn();
