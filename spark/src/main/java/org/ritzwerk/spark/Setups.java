@@ -14,6 +14,7 @@ import org.apache.spark.sql.Column;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.sql.types.DataTypes;
 import org.apache.spark.sql.types.StructType;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
@@ -111,12 +112,24 @@ final class Setups {
      * ones broadcast back), so a repeated id costs nothing on the driver.
      */
     static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields) {
+        return checkedColumns(table, fields, true);
+    }
+
+    /**
+     * As {@link #checkedColumns(Dataset, Fields)}; without the check ({@code checkIds} false) the
+     * {@link #COPIES} column is null on every row and no id is counted (no extra read, no
+     * shuffle), for tables whose ids are unique by construction.
+     */
+    static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields, boolean checkIds) {
         String[] names = fields.present();
         Column[] columns = new Column[names.length];
         for (int k = 0; k < names.length; k++) {
             columns[k] = table.col(names[k]);
         }
         Dataset<Row> selected = table.select(columns);
+        if (!checkIds) {
+            return selected.withColumn(COPIES, lit(null).cast(DataTypes.LongType));
+        }
         Dataset<Row> repeated = selected.groupBy(col(names[0]).as(KEY)).agg(count(lit(1)).as(COPIES))
                 .where(col(COPIES).gt(1));
         Column[] out = new Column[names.length + 1];
@@ -172,7 +185,16 @@ final class Setups {
      */
     static <P> Dataset<Row> run(Dataset<Row> table, StructType expected, String role, P parameters,
             InternalJob<P> job, StructType output) {
-        Dataset<Row> checked = checkedColumns(table, Fields.of(table.schema(), expected, role));
+        return run(table, expected, role, parameters, job, output, true);
+    }
+
+    /**
+     * As {@link #run(Dataset, StructType, String, Object, InternalJob, StructType)}, with the id
+     * check on or off ({@link #checkedColumns(Dataset, Fields, boolean)}).
+     */
+    static <P> Dataset<Row> run(Dataset<Row> table, StructType expected, String role, P parameters,
+            InternalJob<P> job, StructType output, boolean checkIds) {
+        Dataset<Row> checked = checkedColumns(table, Fields.of(table.schema(), expected, role), checkIds);
         Fields fields = Fields.of(checked.schema(), expected, role);
         int copies = checked.schema().fieldIndex(COPIES);
         Broadcast<P> shared = JavaSparkContext.fromSparkContext(table.sparkSession().sparkContext())

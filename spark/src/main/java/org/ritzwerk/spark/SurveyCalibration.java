@@ -48,9 +48,12 @@ import org.ritzwerk.refdata.DataContext;
 public final class SurveyCalibration {
 
     private final CalibrationParameters parameters;
+    /** Whether every row's id is checked to be unique (one extra read of the ids and a shuffle). */
+    private final boolean checkIds;
 
-    private SurveyCalibration(CalibrationParameters parameters) {
+    private SurveyCalibration(CalibrationParameters parameters, boolean checkIds) {
         this.parameters = Objects.requireNonNull(parameters, "parameters");
+        this.checkIds = checkIds;
     }
 
     /**
@@ -59,7 +62,19 @@ public final class SurveyCalibration {
      */
     public static SurveyCalibration of(CalibrationParameters parameters) {
         new Setup(parameters);
-        return new SurveyCalibration(parameters);
+        return new SurveyCalibration(parameters, true);
+    }
+
+    /**
+     * @param on whether to check that no two rows share an id (on by default): a repeated id
+     *           (the same file ingested twice) then fails the job naming the id. Off, a table
+     *           whose ids are unique by construction (a primary key) is processed without the
+     *           extra read of its ids and the shuffle that counts them; a repeated id then gives
+     *           two output rows with that id. The numbers of every row are the same either way.
+     * @return the operation with the check on or off
+     */
+    public SurveyCalibration withIdCheck(boolean on) {
+        return new SurveyCalibration(parameters, on);
     }
 
     /** @return the parameters */
@@ -76,7 +91,7 @@ public final class SurveyCalibration {
         return Setups.run(exposures, Schemas.EXPOSURES, "exposure", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.calibrate(f, row);
-        }, Schemas.CALIBRATIONS);
+        }, Schemas.CALIBRATIONS, checkIds);
     }
 
     /** The columns of a calibration that applying it reads, in this order after the science columns. */

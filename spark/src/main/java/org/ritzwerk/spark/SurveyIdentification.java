@@ -59,9 +59,12 @@ import org.ritzwerk.refdata.DataContext;
 public final class SurveyIdentification {
 
     private final IdentificationParameters parameters;
+    /** Whether every row's id is checked to be unique (one extra read of the ids and a shuffle). */
+    private final boolean checkIds;
 
-    private SurveyIdentification(IdentificationParameters parameters) {
+    private SurveyIdentification(IdentificationParameters parameters, boolean checkIds) {
         this.parameters = Objects.requireNonNull(parameters, "parameters");
+        this.checkIds = checkIds;
     }
 
     /**
@@ -71,7 +74,19 @@ public final class SurveyIdentification {
      */
     public static SurveyIdentification of(IdentificationParameters parameters) {
         new Setup(parameters);
-        return new SurveyIdentification(parameters);
+        return new SurveyIdentification(parameters, true);
+    }
+
+    /**
+     * @param on whether to check that no two rows share an id (on by default): a repeated id
+     *           (the same file ingested twice) then fails the job naming the id. Off, a table
+     *           whose ids are unique by construction (a primary key) is processed without the
+     *           extra read of its ids and the shuffle that counts them; a repeated id then gives
+     *           two output rows with that id. The numbers of every row are the same either way.
+     * @return the operation with the check on or off
+     */
+    public SurveyIdentification withIdCheck(boolean on) {
+        return new SurveyIdentification(parameters, on);
     }
 
     /** @return the parameters */
@@ -88,7 +103,7 @@ public final class SurveyIdentification {
         return new Result(Setups.run(peakLists, Schemas.PEAK_LISTS, "peak-list", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.identify(f, row);
-        }, Schemas.IDENTIFIED_SPECTRA));
+        }, Schemas.IDENTIFIED_SPECTRA, checkIds));
     }
 
     /**

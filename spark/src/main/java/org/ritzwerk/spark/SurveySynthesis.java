@@ -40,9 +40,12 @@ import org.ritzwerk.refdata.DataContext;
 public final class SurveySynthesis {
 
     private final SynthesisParameters parameters;
+    /** Whether every row's id is checked to be unique (one extra read of the ids and a shuffle). */
+    private final boolean checkIds;
 
-    private SurveySynthesis(SynthesisParameters parameters) {
+    private SurveySynthesis(SynthesisParameters parameters, boolean checkIds) {
         this.parameters = Objects.requireNonNull(parameters, "parameters");
+        this.checkIds = checkIds;
     }
 
     /**
@@ -50,7 +53,19 @@ public final class SurveySynthesis {
      * @return the operation
      */
     public static SurveySynthesis of(SynthesisParameters parameters) {
-        return new SurveySynthesis(parameters);
+        return new SurveySynthesis(parameters, true);
+    }
+
+    /**
+     * @param on whether to check that no two rows share an id (on by default): a repeated id
+     *           (the same file ingested twice) then fails the job naming the id. Off, a table
+     *           whose ids are unique by construction (a primary key) is processed without the
+     *           extra read of its ids and the shuffle that counts them; a repeated id then gives
+     *           two output rows with that id. The numbers of every row are the same either way.
+     * @return the operation with the check on or off
+     */
+    public SurveySynthesis withIdCheck(boolean on) {
+        return new SurveySynthesis(parameters, on);
     }
 
     /** @return the parameters */
@@ -67,7 +82,7 @@ public final class SurveySynthesis {
         return Setups.run(scenes, Schemas.SCENES, "scene", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.synthesise(f, row);
-        }, Schemas.SPECTRA);
+        }, Schemas.SPECTRA, checkIds);
     }
 
     /** The data context, grid and species models of one partition. Not thread-safe (one task). */

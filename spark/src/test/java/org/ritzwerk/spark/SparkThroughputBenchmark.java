@@ -270,6 +270,13 @@ public class SparkThroughputBenchmark {
         identification.identify(peakTable).spectra().write().format("noop").mode("overwrite").save();
     }
 
+    /** The Spark operation without the id check ({@code withIdCheck(false)}): no count of the ids, no shuffle. */
+    @Benchmark
+    public void identifySparkNoIdCheck() {
+        identification.withIdCheck(false).identify(peakTable).spectra().write().format("noop").mode("overwrite")
+                .save();
+    }
+
     /** Baseline: the library on {@code cores} threads, each taking a contiguous share of the scenes. */
     @Benchmark
     public double synthesiseLibrary() throws Exception {
@@ -293,5 +300,11 @@ public class SparkThroughputBenchmark {
     @Benchmark
     public void synthesiseSpark() {
         synthesis.synthesise(sceneTable).write().format("noop").mode("overwrite").save();
+    }
+
+    /** The Spark operation without the id check. */
+    @Benchmark
+    public void synthesiseSparkNoIdCheck() {
+        synthesis.withIdCheck(false).synthesise(sceneTable).write().format("noop").mode("overwrite").save();
     }
 }
