@@ -12,7 +12,8 @@ import org.ritzwerk.data.CalibrationRecord;
  *   <li>pair the strongest peaks with the lamp's lines with no starting solution, or within the
  *       problem's prior ({@link LampMatcher});</li>
  *   <li>refine: every peak, placed by that first solution, is assigned to the lamp lines by the
- *       line identifier's optimal one-to-one assignment ({@link IdentifierRefinement}); a peak that
+ *       line identifier's optimal one-to-one assignment ({@link IdentifierRefinement}), except the
+ *       peaks the matcher explained as second-order images of lamp lines; a peak that
  *       looks like an unresolved blend weighs only as much as its centroid can be trusted;</li>
  *   <li>fit a weighted polynomial with outlier clipping ({@link DispersionFit}).</li>
  * </ol>

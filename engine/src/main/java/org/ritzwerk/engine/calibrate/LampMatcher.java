@@ -52,6 +52,22 @@ import org.ritzwerk.medium.Medium;
  * the best so far are not verified. No extrapolation is trusted beyond what the prior and the pairs so far
  * support, so a curved dispersion is followed, not overshot.
  *
+ * <p><b>Second-order images.</b> A grating without an order-sorting filter puts the second order
+ * of a line of wavelength lambda where the first order of 2 lambda falls (m lambda = const for the
+ * same angles; the grating equation), so such spectrometers show ghosts of the lamp's violet and
+ * ultraviolet lines among its red ones. Unless switched off ({@link #withSecondOrder(boolean)}),
+ * the window of lines searched holds, beside each line, its image at twice its wavelength. The
+ * images never seed a hypothesis (their strength is unknown: nothing at all behind a filter),
+ * are never paired during growth and never bend the polynomial; a peak is an image only when no
+ * first-order line lies within the tolerance of where the polynomial puts it. A peak so explained
+ * counts as matched (a strong peak matched, a term of the score, a precise match of the chance
+ * test, whose line density counts the images too, so chance is judged against the denser
+ * window) and is listed in {@link LampMatch#secondOrderPeaks()}; it is not a pair of the match,
+ * and a solution needs at least {@value #MIN_MATCHES} first-order pairs. (Seeded sweeps of curved
+ * lamp spectra, refdata's CalibrationSweepTest: exposures whose strongest peaks were partly
+ * ghosts, refused before because the right seeds died in the neighbour test, the share of strong
+ * peaks stayed below the required one, or the chance test saw too few matches, are solved.)
+ *
  * <p><b>Verification and score.</b> The grown polynomial must be monotonic in the seed's
  * direction over the whole detector, inside the prior, and (for air wavelengths) above 200 nm,
  * where the air model starts. Then every peak, not only the strong ones, is matched to its

@@ -22,7 +22,8 @@ import org.ritzwerk.engine.calibrate.Peaks;
  * anywhere between its first and last fitted line; the job refuses instead. An accepted run off
  * by more than 0.1 pixel must say so: its error stays within five of the solution's own stated
  * standard uncertainties. The share solved to
- * better than 0.1 pixel is held at what the matcher reaches today: 23 of these 30. Full sweeps
+ * better than 0.1 pixel is held at what the matcher reaches today: 25 of these 30 (23 before the
+ * second-order images). Full sweeps
  * (run {@link CalibrationSweep#main} with {@code 1 100 0.6}, {@code 101 100 0.6}, ...), solved /
  * refused / accepted with 0.1 to 1 pixel error (a blended or edge line pulling the cubic) / worse:
  * seeds 1 to 100 84 / 7 / 9 / 0, seeds 101 to 200 85 / 4 / 11 / 0, 201 to 300 72 / 9 / 19 / 0,
@@ -48,6 +49,24 @@ import org.ritzwerk.engine.calibrate.Peaks;
  * already kept those runs right, so the counts do not move. The pulled centroids of seeds 9 and 32
  * lie under foreign lines 0.35 to 1.55 pixels away that change the width too little to be seen
  * (see the test below); seed 139's worst pair has no other line within 8 pixels.
+ *
+ * <p>With peaks explained as second-order images of the lamp's lines (see the test below):
+ * seeds 1 to 100 87 / 4 / 9 / 0, 101 to 200 85 / 4 / 11 / 0, 201 to 300 74 / 6 / 20 / 0, 301 to 400
+ * 82 / 7 / 11 / 0 (the same code with images switched off: 84 / 7 / 9 / 0, 84 / 4 / 12 / 0,
+ * 73 / 9 / 18 / 0, 81 / 7 / 12 / 0), 328 of 400 solved; every exposure against the wrong gases
+ * refused (341 of 341 in seeds 1 to 400). Coverage of the stated uncertainty, within one and two
+ * of it: 0.743 / 0.971, 0.702 / 0.947, 0.690 / 0.952, 0.719 / 0.966. The goal of 99 % solved is not
+ * reached, and the causes are these. Of the 51 runs accepted with 0.1 to 1 pixel error, 40 have
+ * it within a tenth of the fitted range from its first or last line, which in most is a weak line
+ * (S/N 5 to 15, centroid uncertainty 0.1 to 0.3 pixel) or an unresolved blend: the error is that
+ * line's own, and the stated uncertainty says so (within 2.5 of it in 35 of the 40); the other 11
+ * have it inside a long gap between lines (seeds 77, 83, 216, 222, 260, 262, 272, 275, 302, 330,
+ * 358), where the degree AICc chose (a quadratic for 7 pairs in seed 275) cannot follow the cubic
+ * truth. Two runs exceed five stated standard uncertainties: seed 275 (6.3) and seed 395 (6.1).
+ * Of the 21 refused, 12 fail the chance test with few peaks (5 to 16 strong; right pairings whose
+ * probability times the 520 to 4809 pairings tried exceeds 0.01),
+ * 3 find only 3 peaks, 5 find no pairing of 4 or more (4 to 11 peaks), 1 fails the final fit's
+ * chi-square.
  */
 class CalibrationSweepTest {
 
@@ -55,7 +74,7 @@ class CalibrationSweepTest {
     void curvedDispersionsAreSolvedOrRefusedNeverWrong() {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6, Calibrator.defaults());
         assertEquals(0, outcome.wrong(), outcome.toString());
-        assertTrue(outcome.solved() >= 23, outcome.toString());
+        assertTrue(outcome.solved() >= 25, outcome.toString());
         // Where a solution is off by 0.1 to 1 pixel, it says so: the error stays within five of its
         // own stated standard uncertainties.
         assertTrue(outcome.worstImpreciseSigmas() <= 5, outcome.toString());
