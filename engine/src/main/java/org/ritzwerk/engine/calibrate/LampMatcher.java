@@ -771,7 +771,7 @@ public final class LampMatcher {
                 double widthNm = (tolerance + bend) * Math.abs(dispersion);
                 for (int l = lowerBound(predicted - widthNm); l < windowNm.length
                         && windowNm[l] <= predicted + widthNm; l++) {
-                    if (window[l] >= 0) {
+                    if (window[l] >= 0) { // a first-order line; an image does not vouch for a seed
                         return true;
                     }
                 }
@@ -939,7 +939,7 @@ public final class LampMatcher {
             double d1 = Double.POSITIVE_INFINITY;
             double d2 = Double.POSITIVE_INFINITY;
             for (int l = from; l < windowNm.length && windowNm[l] <= nm + widthNm; l++) {
-                if (taken(l) || window[l] < 0) {
+                if (taken(l) || window[l] < 0) { // images are never paired while growing
                     continue;
                 }
                 double d = Math.abs(windowNm[l] - nm);
