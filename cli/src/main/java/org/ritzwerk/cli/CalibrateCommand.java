@@ -129,6 +129,11 @@ final class CalibrateCommand implements Callable<Integer> {
                     + "lower it for lamps with many lines missing from the set. Default: ${DEFAULT-VALUE}.")
     double minMatched;
 
+    @Option(names = "--no-second-order",
+            description = "Never explain a peak as the second-order image of a lamp line (at twice its wavelength); "
+                    + "for a spectrometer with an order-sorting filter, where such ghosts cannot occur.")
+    boolean noSecondOrder;
+
     @Option(names = "--clip", paramLabel = "K", defaultValue = "3.5",
             description = "Reject pairs beyond K robust standard deviations, one at a time. Default: ${DEFAULT-VALUE}.")
     double clip;
@@ -200,7 +205,7 @@ final class CalibrateCommand implements Callable<Integer> {
         if (apply != null) {
             for (String option : new String[] {"--lamp", "--lines", "--medium", "--from", "--to", "--dispersion-range",
                 "--degree", "--max-degree", "--threshold", "--saturation", "--tolerance", "--min-matched", "--min-strength",
-                "--clip", "--plot", "--format", "--data"}) {
+                "--no-second-order", "--clip", "--plot", "--format", "--data"}) {
                 rules.refuseUnless(option, false, "with --apply (the saved solution is applied as it is; "
                         + "--out is the only option --apply takes)");
             }
@@ -240,7 +245,7 @@ final class CalibrateCommand implements Callable<Integer> {
 
     private Calibrator calibrator() {
         Calibrator calibrator = Calibrator.defaults().withThreshold(threshold).withTolerance(tolerance)
-                .withMinMatchedFraction(minMatched).withClipping(clip);
+                .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(!noSecondOrder);
         calibrator = degree.equals("auto") ? calibrator.withAutomaticDegree(maxDegree)
                 : calibrator.withDegree(parseDegree());
         return saturation == null ? calibrator : calibrator.withSaturationLevel(saturation);
@@ -363,8 +368,11 @@ final class CalibrateCommand implements Callable<Integer> {
                 String.join(", ", calibration.problem().lamp().setIds()));
         w.printf(Locale.ROOT, "Peaks found: %d above S/N %.3g (noise scale %.3g counts)%n", calibration.peaks().size(),
                 calibration.settings().threshold(), calibration.peaks().noiseScale());
-        w.printf(Locale.ROOT, "Paired with lamp lines: %d of the %d strongest peaks matched (%.0f %%)%n",
-                calibration.strongMatched(), calibration.strongPeaks(), 100 * calibration.matchedFraction());
+        int images = calibration.firstMatch().secondOrderPeaks().length;
+        w.printf(Locale.ROOT, "Paired with lamp lines: %d of the %d strongest peaks matched (%.0f %%)%s%n",
+                calibration.strongMatched(), calibration.strongPeaks(), 100 * calibration.matchedFraction(),
+                images == 0 ? "" : String.format(Locale.ROOT, "; %d peak%s explained as second-order image%s of lamp "
+                        + "lines, not fitted", images, images == 1 ? "" : "s", images == 1 ? "" : "s"));
         w.printf(Locale.ROOT, "Solution: degree %d in %s wavelengths, %d lines used, %d rejected%n",
                 solution.degree(), solution.medium().label(), solution.usedCount(), solution.rejectedCount());
         w.printf(Locale.ROOT, "RMS of the residuals: %.4g nm = %.3g pixel (reduced chi-square %.3g)%n",

@@ -121,6 +121,48 @@ class CalibrateCommandTest {
         assertTrue(Files.size(png) > 1000);
     }
 
+    /**
+     * Ghosts: the second orders of Hg 296.728 and 312.567 nm (invented strengths, given as lines of
+     * an invented list at 593.456 and 625.134 nm) on the neon spectrum, calibrated against neon and
+     * mercury (whose first-order lines do not show here). The report says the two peaks were
+     * explained as second-order images and fitted neither; with --no-second-order it does not, and
+     * the fitted lines are neon lines either way.
+     */
+    @Test
+    void ghostsOfTheLampsSecondOrderAreNamedAndNotFitted(@TempDir Path dir) throws IOException {
+        Path ghosts = dir.resolve("ghosts.csv");
+        Files.writeString(ghosts, """
+                # ritzwerk-lines 1
+                # id: invented-ghosts
+                # title: second orders of two Hg lines, strengths invented for a test
+                # source: invented for this test (positions twice the lamp-hg-i rows)
+                # provenance: computed
+                # version: 1
+                # position-unit: nm
+                # medium: air
+                species,position,intensity
+                Fe I,593.456,400
+                Fe I,625.1336,400
+                """);
+        Path spectrum = dir.resolve("ghosts-neon.csv");
+        CliTest.Run synth = CliTest.run("synth", "--lines", "lamp-ne-i", "--lines", ghosts.toString(), "--dispersion",
+                "540,0.06,-2e-6", "--pixels", String.valueOf(PIXELS), "--medium", "air", "--temperature", "400",
+                "--resolving-power", "4000", "--read-noise", "4", "--seed", "13", "--out", spectrum.toString());
+        assertEquals(0, synth.code(), synth.err());
+        CliTest.Run run = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I,Hg I", "--format", "csv");
+        assertEquals(0, run.code(), run.err());
+        CliTest.Run text = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I,Hg I");
+        assertTrue(text.out().contains("2 peaks explained as second-order images of lamp lines, not fitted"),
+                text.out());
+        CliTest.Run firstOrder = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I,Hg I",
+                "--no-second-order");
+        assertEquals(0, firstOrder.code(), firstOrder.err());
+        assertTrue(!firstOrder.out().contains("second-order"), firstOrder.out());
+        for (String row : run.out().split("\\R")) {
+            assertTrue(row.startsWith("pixel") || row.isBlank() || row.contains("Ne I"), row);
+        }
+    }
+
     @Test
     void appliesASavedSolutionToAnotherSpectrum(@TempDir Path dir) throws IOException {
         Path calibration = dir.resolve("calibration.json");

@@ -12,7 +12,8 @@ import org.ritzwerk.data.CalibrationRecord;
  *   <li>pair the strongest peaks with the lamp's lines with no starting solution, or within the
  *       problem's prior ({@link LampMatcher});</li>
  *   <li>refine: every peak, placed by that first solution, is assigned to the lamp lines by the
- *       line identifier's optimal one-to-one assignment ({@link IdentifierRefinement}); a peak that
+ *       line identifier's optimal one-to-one assignment ({@link IdentifierRefinement}), except the
+ *       peaks the matcher explained as second-order images of lamp lines; a peak that
  *       looks like an unresolved blend weighs only as much as its centroid can be trusted;</li>
  *   <li>fit a weighted polynomial with outlier clipping ({@link DispersionFit}).</li>
  * </ol>
@@ -45,9 +46,10 @@ public final class Calibrator {
     private final int degree;
     private final int maxDegree;
     private final double maxChi2;
+    private final boolean secondOrder;
 
     private Calibrator(double threshold, double saturation, boolean negativeCountsAllowed, double tolerance,
-            double minMatched, double clip, int degree, int maxDegree, double maxChi2) {
+            double minMatched, double clip, int degree, int maxDegree, double maxChi2, boolean secondOrder) {
         this.threshold = threshold;
         this.saturation = saturation;
         this.negativeCountsAllowed = negativeCountsAllowed;
@@ -57,6 +59,7 @@ public final class Calibrator {
         this.degree = degree;
         this.maxDegree = maxDegree;
         this.maxChi2 = maxChi2;
+        this.secondOrder = secondOrder;
     }
 
     /**
@@ -68,7 +71,7 @@ public final class Calibrator {
      */
     public static Calibrator defaults() {
         return new Calibrator(PeakFinder.DEFAULT_THRESHOLD, Double.NaN, true, DEFAULT_TOLERANCE, DEFAULT_MIN_MATCHED,
-                DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE, DEFAULT_MAX_REDUCED_CHI_SQUARE);
+                DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE, DEFAULT_MAX_REDUCED_CHI_SQUARE, true);
     }
 
     /**
@@ -77,7 +80,8 @@ public final class Calibrator {
      */
     public Calibrator withThreshold(double snr) {
         PeakFinder.defaults().withThreshold(snr); // validates
-        return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree, maxDegree, maxChi2);
+        return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder);
     }
 
     /**
@@ -87,7 +91,8 @@ public final class Calibrator {
      */
     public Calibrator withSaturationLevel(double counts) {
         PeakFinder.defaults().withSaturationLevel(counts); // validates
-        return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree, maxDegree, maxChi2);
+        return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder);
     }
 
     /**
@@ -95,7 +100,8 @@ public final class Calibrator {
      * @return a solver with that setting
      */
     public Calibrator withNegativeCountsAllowed(boolean allowed) {
-        return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree, maxDegree, maxChi2);
+        return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder);
     }
 
     /**
@@ -104,7 +110,8 @@ public final class Calibrator {
      */
     public Calibrator withTolerance(double pixels) {
         LampMatcher.defaults().withTolerance(pixels); // validates
-        return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree, maxDegree, maxChi2);
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder);
     }
 
     /**
@@ -114,7 +121,8 @@ public final class Calibrator {
      */
     public Calibrator withMinMatchedFraction(double fraction) {
         LampMatcher.defaults().withMinInlierFraction(fraction); // validates
-        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree, maxDegree, maxChi2);
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree,
+                maxDegree, maxChi2, secondOrder);
     }
 
     /**
@@ -123,7 +131,8 @@ public final class Calibrator {
      */
     public Calibrator withClipping(double k) {
         DispersionFit.automatic(1).withClipping(k, DispersionFit.DEFAULT_CLIP_ITERATIONS); // validates
-        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree, maxDegree, maxChi2);
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree,
+                maxDegree, maxChi2, secondOrder);
     }
 
     /**
@@ -133,7 +142,7 @@ public final class Calibrator {
     public Calibrator withDegree(int fixedDegree) {
         DispersionFit.ofDegree(fixedDegree); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, fixedDegree,
-                maxDegree, maxChi2);
+                maxDegree, maxChi2, secondOrder);
     }
 
     /**
@@ -142,7 +151,8 @@ public final class Calibrator {
      */
     public Calibrator withAutomaticDegree(int highest) {
         DispersionFit.automatic(highest); // validates
-        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest, maxChi2);
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest,
+                maxChi2, secondOrder);
     }
 
     /**
@@ -157,7 +167,23 @@ public final class Calibrator {
                     + limit);
         }
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, limit);
+                maxDegree, limit, secondOrder);
+    }
+
+    /**
+     * @param considered whether peaks may be explained as second-order images of the lamp's lines
+     *                   (see {@link LampMatcher#withSecondOrder(boolean)}); true by default, switch
+     *                   it off for a spectrometer with an order-sorting filter
+     * @return a solver with that setting
+     */
+    public Calibrator withSecondOrder(boolean considered) {
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, considered);
+    }
+
+    /** @return whether peaks may be explained as second-order images of the lamp's lines */
+    public boolean secondOrder() {
+        return secondOrder;
     }
 
     /** @return the largest accepted reduced chi-square of the final fit */
@@ -227,7 +253,7 @@ public final class Calibrator {
         }
         LampSet lamp = problem.lamp();
         LampMatcher matcher = LampMatcher.defaults().withTolerance(tolerance).withPrior(problem.prior())
-                .withMinInlierFraction(minMatched);
+                .withMinInlierFraction(minMatched).withSecondOrder(secondOrder);
         LampMatch first = matcher.match(peaks, lamp.lines());
         DispersionFit fit = fit();
         LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, lamp.lines(),
@@ -301,6 +327,6 @@ public final class Calibrator {
         return "Calibrator[threshold=" + threshold + ", saturation=" + saturation + ", tolerance=" + tolerance
                 + " px, minMatched=" + minMatched + ", clip=" + clip + ", degree="
                 + (degree > 0 ? Integer.toString(degree) : "auto<=" + maxDegree) + ", maxReducedChiSquare=" + maxChi2
-                + "]";
+                + ", secondOrder=" + secondOrder + "]";
     }
 }

@@ -53,8 +53,25 @@ final class IdentifierRefinement {
         for (double slope : calibrated.dispersionsNmPerPixel()) {
             widest = Math.max(widest, Math.abs(slope));
         }
-        PeakList peakList = PeakList.of(calibrated.wavelengthsNm(), calibrated.wavelengthSigmasNm(),
-                calibrated.fluxes(0), Unit.NANOMETRE, lines.medium());
+        // Peaks the matcher explained as second-order images of lamp lines take no part: they are
+        // no first-order line, and would otherwise take a line near them from the peak it belongs to.
+        int[] images = match.secondOrderPeaks();
+        int[] candidate = new int[n - images.length];
+        double[] nm = calibrated.wavelengthsNm();
+        double[] nmSigma = calibrated.wavelengthSigmasNm();
+        double[] flux = calibrated.fluxes(0);
+        int c = 0;
+        for (int k = 0; k < n; k++) {
+            if (Arrays.binarySearch(images, k) < 0) {
+                candidate[c] = k;
+                nm[c] = nm[k];
+                nmSigma[c] = nmSigma[k];
+                flux[c] = flux[k];
+                c++;
+            }
+        }
+        PeakList peakList = PeakList.of(Arrays.copyOf(nm, c), Arrays.copyOf(nmSigma, c), Arrays.copyOf(flux, c),
+                Unit.NANOMETRE, lines.medium());
         LineCatalog.Builder catalog = LineCatalog.builder();
         for (int j = 0; j < lines.size(); j++) {
             double vacuum = lines.medium().toVacuum(lines.wavelength(j) * 1e-9);
@@ -66,10 +83,11 @@ final class IdentifierRefinement {
         int[] peakIndex = new int[n];
         int[] lineIndex = new int[n];
         int m = 0;
-        for (int k = 0; k < n; k++) {
-            if (id.status(k) == Identification.MATCHED) {
+        for (int q = 0; q < c; q++) {
+            if (id.status(q) == Identification.MATCHED) {
+                int k = candidate[q];
                 peakIndex[m] = k;
-                lineIndex[m] = Integer.parseInt(built.label(id.line(k)));
+                lineIndex[m] = Integer.parseInt(built.label(id.line(q)));
                 m++;
             }
         }
@@ -96,7 +114,8 @@ final class IdentifierRefinement {
         return new LampMatch(peakIndex, lineIndex, pixel, pixelSigma, wavelength, wavelengthSigma,
                 lines.sigmasGiven(), residual, match.strongPeaks(), match.strongMatched(), match.degree(),
                 match.hypotheses(), solution.wavelengthAt(0), solution.wavelengthAt(peaks.pixels() - 1),
-                lines.medium(), match.chanceMatches(), match.chanceProbability(), match.distinctHypotheses());
+                lines.medium(), match.chanceMatches(), match.chanceProbability(), match.distinctHypotheses(),
+                match.secondOrderPeaks());
     }
 
     /** Well-fitted neighbours whose widths give the instrument's width near a peak. */

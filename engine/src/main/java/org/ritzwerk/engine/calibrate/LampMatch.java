@@ -29,11 +29,13 @@ public final class LampMatch {
     private final double chanceMatches;
     private final double chanceProbability;
     private final int distinctHypotheses;
+    private final int[] secondOrderPeaks;
 
     LampMatch(int[] peakIndex, int[] lineIndex, double[] pixel, double[] pixelSigma, double[] wavelength,
             double[] wavelengthSigma, boolean lineSigmasGiven, double[] residualPixels, int strongPeaks,
             int strongMatched, int degree, long hypotheses, double firstWavelength, double lastWavelength,
-            Medium medium, double chanceMatches, double chanceProbability, int distinctHypotheses) {
+            Medium medium, double chanceMatches, double chanceProbability, int distinctHypotheses,
+            int[] secondOrderPeaks) {
         this.peakIndex = peakIndex;
         this.lineIndex = lineIndex;
         this.pixel = pixel;
@@ -52,6 +54,16 @@ public final class LampMatch {
         this.chanceMatches = chanceMatches;
         this.chanceProbability = chanceProbability;
         this.distinctHypotheses = distinctHypotheses;
+        this.secondOrderPeaks = secondOrderPeaks;
+    }
+
+    /**
+     * @return the indices of the peaks the matcher explained as second-order images of lamp lines
+     *         (at twice a line's wavelength), in ascending order; they are counted in
+     *         {@link #strongMatched()} but are not pairs (a copy)
+     */
+    public int[] secondOrderPeaks() {
+        return secondOrderPeaks.clone();
     }
 
     /**
@@ -106,7 +118,7 @@ public final class LampMatch {
         }
         return new LampMatch(pi, li, px, ps, nm, ns, lineSigmasGiven, r, strongPeaks, strongMatched, degree,
                 hypotheses, firstWavelength, lastWavelength, medium, chanceMatches, chanceProbability,
-                distinctHypotheses);
+                distinctHypotheses, secondOrderPeaks);
     }
 
     /** @return the number of matched pairs */

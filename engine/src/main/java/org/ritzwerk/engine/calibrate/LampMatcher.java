@@ -52,6 +52,22 @@ import org.ritzwerk.medium.Medium;
  * the best so far are not verified. No extrapolation is trusted beyond what the prior and the pairs so far
  * support, so a curved dispersion is followed, not overshot.
  *
+ * <p><b>Second-order images.</b> A grating without an order-sorting filter puts the second order
+ * of a line of wavelength lambda where the first order of 2 lambda falls (m lambda = const for the
+ * same angles; the grating equation), so such spectrometers show ghosts of the lamp's violet and
+ * ultraviolet lines among its red ones. Unless switched off ({@link #withSecondOrder(boolean)}),
+ * the window of lines searched holds, beside each line, its image at twice its wavelength. The
+ * images never seed a hypothesis (their strength is unknown: nothing at all behind a filter),
+ * are never paired during growth and never bend the polynomial; a peak is an image only when no
+ * first-order line lies within the tolerance of where the polynomial puts it. A peak so explained
+ * counts as matched (a strong peak matched, a term of the score, a precise match of the chance
+ * test, whose line density counts the images too, so chance is judged against the denser
+ * window) and is listed in {@link LampMatch#secondOrderPeaks()}; it is not a pair of the match,
+ * and a solution needs at least {@value #MIN_MATCHES} first-order pairs. (Seeded sweeps of curved
+ * lamp spectra, refdata's CalibrationSweepTest: exposures whose strongest peaks were partly
+ * ghosts, refused before because the right seeds died in the neighbour test, the share of strong
+ * peaks stayed below the required one, or the chance test saw too few matches, are solved.)
+ *
  * <p><b>Verification and score.</b> The grown polynomial must be monotonic in the seed's
  * direction over the whole detector, inside the prior, and (for air wavelengths) above 200 nm,
  * where the air model starts. Then every peak, not only the strong ones, is matched to its
@@ -212,9 +228,10 @@ public final class LampMatcher {
     private final int maxDegree;
     private final double minInlierFraction;
     private final double maxCurvature;
+    private final boolean secondOrder;
 
     private LampMatcher(Prior prior, double tolerance, int strongPeaks, int strongLines, int maxDegree,
-            double minInlierFraction, double maxCurvature) {
+            double minInlierFraction, double maxCurvature, boolean secondOrder) {
         this.prior = prior;
         this.tolerance = tolerance;
         this.strongPeaks = strongPeaks;
@@ -222,6 +239,7 @@ public final class LampMatcher {
         this.maxDegree = maxDegree;
         this.minInlierFraction = minInlierFraction;
         this.maxCurvature = maxCurvature;
+        this.secondOrder = secondOrder;
     }
 
     /**
@@ -231,7 +249,7 @@ public final class LampMatcher {
      */
     public static LampMatcher defaults() {
         return new LampMatcher(Prior.none(), DEFAULT_TOLERANCE, DEFAULT_STRONG_PEAKS, DEFAULT_STRONG_LINES,
-                DEFAULT_MAX_DEGREE, DEFAULT_MIN_INLIER_FRACTION, DEFAULT_MAX_CURVATURE);
+                DEFAULT_MAX_DEGREE, DEFAULT_MIN_INLIER_FRACTION, DEFAULT_MAX_CURVATURE, true);
     }
 
     /**
@@ -240,7 +258,7 @@ public final class LampMatcher {
      */
     public LampMatcher withPrior(Prior prior) {
         return new LampMatcher(Objects.requireNonNull(prior, "prior"), tolerance, strongPeaks, strongLines, maxDegree,
-                minInlierFraction, maxCurvature);
+                minInlierFraction, maxCurvature, secondOrder);
     }
 
     /**
@@ -253,7 +271,8 @@ public final class LampMatcher {
         if (!(pixels > 0) || Double.isInfinite(pixels)) {
             throw new IllegalArgumentException("tolerance must be finite and > 0 pixels, got " + pixels);
         }
-        return new LampMatcher(prior, pixels, strongPeaks, strongLines, maxDegree, minInlierFraction, maxCurvature);
+        return new LampMatcher(prior, pixels, strongPeaks, strongLines, maxDegree, minInlierFraction, maxCurvature,
+                secondOrder);
     }
 
     /**
@@ -268,7 +287,7 @@ public final class LampMatcher {
         if (lines < 4 || lines > 500) {
             throw new IllegalArgumentException("strong lines must be 4 to 500, got " + lines);
         }
-        return new LampMatcher(prior, tolerance, peaks, lines, maxDegree, minInlierFraction, maxCurvature);
+        return new LampMatcher(prior, tolerance, peaks, lines, maxDegree, minInlierFraction, maxCurvature, secondOrder);
     }
 
     /**
@@ -279,7 +298,8 @@ public final class LampMatcher {
         if (degree < 1 || degree > 5) {
             throw new IllegalArgumentException("matcher degree must be 1 to 5, got " + degree);
         }
-        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, degree, minInlierFraction, maxCurvature);
+        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, degree, minInlierFraction, maxCurvature,
+                secondOrder);
     }
 
     /**
@@ -290,7 +310,8 @@ public final class LampMatcher {
         if (!(fraction >= 0 && fraction <= 1)) {
             throw new IllegalArgumentException("minimum inlier fraction must be 0 to 1, got " + fraction);
         }
-        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, maxDegree, fraction, maxCurvature);
+        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, maxDegree, fraction, maxCurvature,
+                secondOrder);
     }
 
     /**
@@ -304,7 +325,27 @@ public final class LampMatcher {
             throw new IllegalArgumentException("maximum slope change across the detector must be 0.01 to 10 (1 = "
                     + "100 %), got " + fraction);
         }
-        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, maxDegree, minInlierFraction, fraction);
+        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, maxDegree, minInlierFraction, fraction,
+                secondOrder);
+    }
+
+    /**
+     * @param considered whether a peak may be explained as the second-order image of a lamp line
+     *                   (at twice its wavelength, where a grating without an order-sorting filter
+     *                   puts it); true by default. Such peaks count as matched in the figures and
+     *                   the acceptance tests, and give no pair to the dispersion fit. Switch it off
+     *                   for a spectrometer with an order-sorting filter, where they cannot occur
+     *                   and would only add chance matches.
+     * @return a copy with that setting
+     */
+    public LampMatcher withSecondOrder(boolean considered) {
+        return new LampMatcher(prior, tolerance, strongPeaks, strongLines, maxDegree, minInlierFraction, maxCurvature,
+                considered);
+    }
+
+    /** @return whether second-order images of the lines are considered */
+    public boolean secondOrder() {
+        return secondOrder;
     }
 
     /**
@@ -429,7 +470,8 @@ public final class LampMatcher {
             return false;
         }
         Candidate c = refined.measured();
-        return c.strongMatched >= needed && refined.robustChiSquare() <= MAX_ROBUST_CHI_SQUARE
+        return c.strongMatched >= needed && refined.match().size() >= needed
+                && refined.robustChiSquare() <= MAX_ROBUST_CHI_SQUARE
                 && c.strongMatched >= minInlierFraction * search.strong.length
                 && (needed < MIN_MATCHES || chanceProbability(c) * Math.max(1, search.evaluated) <= MAX_FALSE_ALARM);
     }
@@ -452,6 +494,18 @@ public final class LampMatcher {
         int count = 0;
         for (int i = 0; i < lines.size(); i++) {
             double w = lines.wavelength(i);
+            if (w >= prior.minWavelengthNm() && w <= prior.maxWavelengthNm()) {
+                count++;
+            }
+        }
+        return count;
+    }
+
+    /** The number of lines whose second-order image (twice the wavelength) lies within the prior's range. */
+    private static int imagesWithin(LampLines lines, Prior prior) {
+        int count = 0;
+        for (int i = 0; i < lines.size(); i++) {
+            double w = 2 * lines.wavelength(i);
             if (w >= prior.minWavelengthNm() && w <= prior.maxWavelengthNm()) {
                 count++;
             }
@@ -535,11 +589,17 @@ public final class LampMatcher {
         /** Strong peak indices sorted by pixel, and their pixels. */
         final int[] strong;
         private final double[] strongPixel;
-        /** Line indices within the prior's range, sorted by wavelength, and their wavelengths. */
+        /**
+         * Lines within the prior's range, sorted by wavelength, and their wavelengths: a line index
+         * for a line seen in the first order, -1 - the line index for a second-order image (at
+         * twice the line's wavelength).
+         */
         private final int[] window;
         private final double[] windowNm;
-        /** Strong lines as indices into the window, sorted by wavelength. */
+        /** Strong first-order lines as indices into the window, sorted by wavelength. */
         private final int[] strongLine;
+        /** How many window entries are first-order lines. */
+        private final int firstOrderLines;
         private final double mid;
         private final double half;
         private final double[] priorSigma;
@@ -566,21 +626,43 @@ public final class LampMatcher {
             for (int k = 0; k < strong.length; k++) {
                 strongPixel[k] = centre[strong[k]];
             }
+            // The window: every line within the prior's range in the first order, and (unless
+            // switched off) every line whose second-order image, at twice its wavelength, lies
+            // there. Entries are coded as line index (first order) or -1 - line index (second).
             int count = linesWithin(lines, searchPrior);
-            int[] inside = new int[count];
+            int images = secondOrder ? imagesWithin(lines, searchPrior) : 0;
+            int[] inside = new int[count + images];
             int m = 0;
             for (int i = 0; i < lines.size(); i++) {
                 double w = lines.wavelength(i);
                 if (w >= searchPrior.minWavelengthNm() && w <= searchPrior.maxWavelengthNm()) {
                     inside[m++] = i;
                 }
+                if (secondOrder && 2 * w >= searchPrior.minWavelengthNm() && 2 * w <= searchPrior.maxWavelengthNm()) {
+                    inside[m++] = -1 - i;
+                }
             }
-            window = sortBy(inside, lines::wavelength);
+            window = sortBy(inside, this::entryWavelength);
             windowNm = new double[window.length];
             for (int k = 0; k < window.length; k++) {
-                windowNm[k] = lines.wavelength(window[k]);
+                windowNm[k] = entryWavelength(window[k]);
             }
-            strongLine = strongest(window.length, strongLines, k -> lines.intensity(window[k]), k -> windowNm[k]);
+            firstOrderLines = count;
+            // Seeds come from first-order lines only: the images are weaker by an unknown factor
+            // (nothing at all behind an order-sorting filter), so they explain peaks but never
+            // start a hypothesis.
+            int[] firstOrder = new int[count];
+            int f = 0;
+            for (int k = 0; k < window.length; k++) {
+                if (window[k] >= 0) {
+                    firstOrder[f++] = k;
+                }
+            }
+            int[] chosen = strongest(count, strongLines, j -> lines.intensity(window[firstOrder[j]]), j -> j);
+            strongLine = new int[chosen.length];
+            for (int j = 0; j < chosen.length; j++) {
+                strongLine[j] = firstOrder[chosen[j]];
+            }
             takenMark = new int[window.length];
             int degree = Math.max(1, maxDegree);
             polynomial = new CurvedPolynomial(degree);
@@ -687,9 +769,11 @@ public final class LampMatcher {
                 double bend = maxCurvature * gap * (gap + span) / (2 * pixels);
                 double predicted = nmA + (strongPixel[n] - pixelA) * dispersion;
                 double widthNm = (tolerance + bend) * Math.abs(dispersion);
-                int l = lowerBound(predicted - widthNm);
-                if (l < windowNm.length && windowNm[l] <= predicted + widthNm) {
-                    return true;
+                for (int l = lowerBound(predicted - widthNm); l < windowNm.length
+                        && windowNm[l] <= predicted + widthNm; l++) {
+                    if (window[l] >= 0) { // a first-order line; an image does not vouch for a seed
+                        return true;
+                    }
                 }
             }
             return false;
@@ -727,7 +811,7 @@ public final class LampMatcher {
             }
             // A growth that stopped at a few pairs, or at under half of the best growth so
             // far, cannot win: not worth verifying.
-            if (pairs < Math.min(MIN_MATCHES, window.length) || pairs < 0.5 * mostPairs) {
+            if (pairs < Math.min(MIN_MATCHES, firstOrderLines) || pairs < 0.5 * mostPairs) {
                 return null;
             }
             mostPairs = Math.max(mostPairs, pairs);
@@ -855,7 +939,7 @@ public final class LampMatcher {
             double d1 = Double.POSITIVE_INFINITY;
             double d2 = Double.POSITIVE_INFINITY;
             for (int l = from; l < windowNm.length && windowNm[l] <= nm + widthNm; l++) {
-                if (taken(l)) {
+                if (taken(l) || window[l] < 0) { // images are never paired while growing
                     continue;
                 }
                 double d = Math.abs(windowNm[l] - nm);
@@ -888,6 +972,11 @@ public final class LampMatcher {
             }
         }
 
+        /** The wavelength (nm) of a window entry: a line, or twice it for a second-order image (-1 - line). */
+        private double entryWavelength(int entry) {
+            return entry >= 0 ? lines.wavelength(entry) : 2 * lines.wavelength(-1 - entry);
+        }
+
         /** The first window index whose wavelength is &gt;= nm. */
         private int lowerBound(double nm) {
             int k = Arrays.binarySearch(windowNm, nm);
@@ -912,7 +1001,7 @@ public final class LampMatcher {
             }
             polynomial.reset(scatter() * a1 / half, scaledPrior(a1));
             for (int k = 0; k < lineOf.length; k++) {
-                if (lineOf[k] >= 0) {
+                if (lineOf[k] >= 0 && window[lineOf[k]] >= 0) { // images explain peaks, never bend the fit
                     polynomial.add((peakPixel[k] - mid) / half, windowNm[lineOf[k]]);
                 }
             }
@@ -1006,8 +1095,8 @@ public final class LampMatcher {
         }
 
         /**
-         * Lamp lines per pixel near nm: the lines within DENSITY_HALF_WIDTH tolerances either side,
-         * counting at least one.
+         * Lamp lines per pixel near nm: the window's entries (lines, and second-order images when
+         * considered) within DENSITY_HALF_WIDTH tolerances either side, counting at least one.
          */
         private double lineDensity(double nm, double slope) {
             double halfWidthNm = DENSITY_HALF_WIDTH * tolerance * slope;
@@ -1045,7 +1134,7 @@ public final class LampMatcher {
                 double x = (peakPixel[k] - mid) / half;
                 double nm = PolynomialLeastSquares.evaluate(a, x);
                 double slope = Math.abs(PolynomialLeastSquares.derivative(a, x) / half);
-                int line = nearest(nm);
+                int line = nearestFirstOrder(nm, tolerance * slope);
                 if (line < 0) {
                     continue;
                 }
@@ -1071,6 +1160,33 @@ public final class LampMatcher {
                 }
             }
             return count;
+        }
+
+        /**
+         * The nearest first-order line within reachNm of nm; when there is none, the nearest
+         * entry (a second-order image, or a line beyond the reach). A peak is an image only
+         * where no line of the lamp's first order can explain it.
+         */
+        private int nearestFirstOrder(double nm, double reachNm) {
+            int line = nearest(nm);
+            if (line < 0 || window[line] >= 0) {
+                return line;
+            }
+            int best = -1;
+            double bestDistance = reachNm;
+            for (int step : new int[] {-1, 1}) {
+                for (int j = line + step; j >= 0 && j < windowNm.length && Math.abs(windowNm[j] - nm) <= reachNm;
+                        j += step) {
+                    if (window[j] >= 0) {
+                        if (Math.abs(windowNm[j] - nm) <= bestDistance) {
+                            bestDistance = Math.abs(windowNm[j] - nm);
+                            best = j;
+                        }
+                        break;
+                    }
+                }
+            }
+            return best >= 0 ? best : line;
         }
 
         private int nearest(double nm) {
@@ -1136,7 +1252,7 @@ public final class LampMatcher {
                 int worst = -1;
                 double worstMiss = tolerance;
                 for (int k = 0; k < centre.length; k++) {
-                    if (matched[k] < 0) {
+                    if (matched[k] < 0 || window[matched[k]] < 0) {
                         continue;
                     }
                     double x = (centre[k] - mid) / half;
@@ -1200,7 +1316,19 @@ public final class LampMatcher {
             assign(a, centre, matched);
             a = dropUnconfirmed(a, matched, best.sign);
             Candidate measured = measure(a, best.sign, best.score);
-            int[] order = sortBy(indicesOf(matched), k -> centre[k]);
+            // Peaks explained as second-order images count as matched in the figures above; the
+            // pairs handed on to the dispersion fit are the first-order ones.
+            int[] firstOrder = matched.clone();
+            int[] image = new int[n];
+            Arrays.fill(image, -1);
+            for (int k = 0; k < n; k++) {
+                if (firstOrder[k] >= 0 && window[firstOrder[k]] < 0) {
+                    image[k] = firstOrder[k];
+                    firstOrder[k] = -1;
+                }
+            }
+            int[] secondOrderPeaks = indicesOf(image);
+            int[] order = sortBy(indicesOf(firstOrder), k -> centre[k]);
             int size = order.length;
             int[] peakIndex = new int[size];
             int[] lineIndex = new int[size];
@@ -1223,7 +1351,8 @@ public final class LampMatcher {
             double lastNm = PolynomialLeastSquares.evaluate(a, (pixels - 1 - mid) / half);
             return new Refined(measured, new LampMatch(peakIndex, lineIndex, pixel, pixelSigma, nm, nmSigma,
                     lines.sigmasGiven(), residual, strongPixel.length, measured.strongMatched, a.length - 1, hypotheses,
-                    firstNm, lastNm, lines.medium(), measured.chance, chanceProbability(measured), evaluated));
+                    firstNm, lastNm, lines.medium(), measured.chance, chanceProbability(measured), evaluated,
+                    secondOrderPeaks));
         }
     }
 

@@ -226,6 +226,68 @@ class CalibrationLampMatcherTest {
         assertEquals(CalibrationException.LAMP_MISMATCH, argon.code(), argon.getMessage());
     }
 
+    /**
+     * A spectrometer without an order-sorting filter sees the argon lamp's violet lines a second
+     * time at twice their wavelength. An invented straight dispersion, 690 nm + 0.14 nm per pixel
+     * over 2048 pixels, holds 24 first-order argon lines and the images of 415.86, 419.07, 419.83,
+     * 426.63, 430.01 and 451.07 nm (at 831.72 to 902.15 nm, each at least 7 pixels from a
+     * first-order line), given as strong as the lamp's middling lines. The images are explained,
+     * not paired: they are counted among the strong peaks matched and listed as second-order peaks,
+     * and every pair is a first-order line at its place. With images switched off they count as
+     * unexplained.
+     */
+    @Test
+    void secondOrderImagesAreExplainedNotPaired() {
+        java.util.List<double[]> peaks = new java.util.ArrayList<>(); // {pixel, intensity, line or -1 - line}
+        for (int l = 0; l < ARGON.size(); l++) {
+            double p = (ARGON.wavelength(l) - 690) / 0.14;
+            if (p > 5 && p < 2042) {
+                peaks.add(new double[] {p, ARGON.intensity(l), l});
+            }
+            double image = (2 * ARGON.wavelength(l) - 690) / 0.14;
+            if (image > 5 && image < 2042) {
+                peaks.add(new double[] {image, 150, -1 - l});
+            }
+        }
+        peaks.sort((a, b) -> Double.compare(a[0], b[0]));
+        int n = peaks.size();
+        double[] centre = new double[n];
+        double[] sigma = new double[n];
+        double[] intensity = new double[n];
+        java.util.List<Integer> images = new java.util.ArrayList<>();
+        SplittableRandom random = new SplittableRandom(5);
+        for (int k = 0; k < n; k++) {
+            sigma[k] = 0.05;
+            centre[k] = peaks.get(k)[0] + sigma[k] * CalibrationDispersionFitTest.gaussian(random);
+            intensity[k] = peaks.get(k)[1];
+            if (peaks.get(k)[2] < 0) {
+                images.add(k);
+            }
+        }
+        assertEquals(6, images.size(), "images on the detector");
+        LampMatch match = LampMatcher.defaults().match(centre, sigma, intensity, 2048, ARGON);
+        assertArrayEquals(images.stream().mapToInt(Integer::intValue).toArray(), match.secondOrderPeaks());
+        assertTrue(match.size() >= n - 6 - 2, "pairs " + match.size() + " of " + (n - 6) + " first-order lines");
+        for (int i = 0; i < match.size(); i++) {
+            assertEquals((int) peaks.get(match.peakIndex(i))[2], match.lineIndex(i), "pair " + i);
+        }
+        LampMatch without = LampMatcher.defaults().withSecondOrder(false).match(centre, sigma, intensity, 2048,
+                ARGON);
+        assertEquals(0, without.secondOrderPeaks().length);
+        int strongImages = 0;
+        for (int k : images) {
+            // The strong peaks are the brightest, ties going to the lower index.
+            int rank = 0;
+            for (int j = 0; j < n; j++) {
+                rank += intensity[j] > intensity[k] || (intensity[j] == intensity[k] && j < k) ? 1 : 0;
+            }
+            strongImages += rank < match.strongPeaks() ? 1 : 0;
+        }
+        assertTrue(strongImages > 0, "some images are among the strongest peaks");
+        assertEquals(without.strongMatched() + strongImages, match.strongMatched());
+        assertTrue(LampMatcher.defaults().secondOrder() && !LampMatcher.defaults().withSecondOrder(false).secondOrder());
+    }
+
     @Test
     void aStronglyCurvedDispersionIsFollowed() {
         // The slope runs from 0.10 to 0.16 nm per pixel across 4096 pixels (60 % change): the

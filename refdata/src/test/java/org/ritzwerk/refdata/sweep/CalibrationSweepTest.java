@@ -22,7 +22,8 @@ import org.ritzwerk.engine.calibrate.Peaks;
  * anywhere between its first and last fitted line; the job refuses instead. An accepted run off
  * by more than 0.1 pixel must say so: its error stays within five of the solution's own stated
  * standard uncertainties. The share solved to
- * better than 0.1 pixel is held at what the matcher reaches today: 23 of these 30. Full sweeps
+ * better than 0.1 pixel is held at what the matcher reaches today: 25 of these 30 (23 before the
+ * second-order images). Full sweeps
  * (run {@link CalibrationSweep#main} with {@code 1 100 0.6}, {@code 101 100 0.6}, ...), solved /
  * refused / accepted with 0.1 to 1 pixel error (a blended or edge line pulling the cubic) / worse:
  * seeds 1 to 100 84 / 7 / 9 / 0, seeds 101 to 200 85 / 4 / 11 / 0, 201 to 300 72 / 9 / 19 / 0,
@@ -48,6 +49,24 @@ import org.ritzwerk.engine.calibrate.Peaks;
  * already kept those runs right, so the counts do not move. The pulled centroids of seeds 9 and 32
  * lie under foreign lines 0.35 to 1.55 pixels away that change the width too little to be seen
  * (see the test below); seed 139's worst pair has no other line within 8 pixels.
+ *
+ * <p>With peaks explained as second-order images of the lamp's lines (see the test below):
+ * seeds 1 to 100 87 / 4 / 9 / 0, 101 to 200 85 / 4 / 11 / 0, 201 to 300 74 / 6 / 20 / 0, 301 to 400
+ * 82 / 7 / 11 / 0 (the same code with images switched off: 84 / 7 / 9 / 0, 84 / 4 / 12 / 0,
+ * 73 / 9 / 18 / 0, 81 / 7 / 12 / 0), 328 of 400 solved; every exposure against the wrong gases
+ * refused (341 of 341 in seeds 1 to 400). Coverage of the stated uncertainty, within one and two
+ * of it: 0.743 / 0.971, 0.702 / 0.947, 0.690 / 0.952, 0.719 / 0.966. The goal of 99 % solved is not
+ * reached, and the causes are these. Of the 51 runs accepted with 0.1 to 1 pixel error, 40 have
+ * it within a tenth of the fitted range from its first or last line, which in most is a weak line
+ * (S/N 5 to 15, centroid uncertainty 0.1 to 0.3 pixel) or an unresolved blend: the error is that
+ * line's own, and the stated uncertainty says so (within 2.5 of it in 35 of the 40); the other 11
+ * have it inside a long gap between lines (seeds 77, 83, 216, 222, 260, 262, 272, 275, 302, 330,
+ * 358), where the degree AICc chose (a quadratic for 7 pairs in seed 275) cannot follow the cubic
+ * truth. Two runs exceed five stated standard uncertainties: seed 275 (6.3) and seed 395 (6.1).
+ * Of the 21 refused, 12 fail the chance test with few peaks (5 to 16 strong; right pairings whose
+ * probability times the 520 to 4809 pairings tried exceeds 0.01),
+ * 3 find only 3 peaks, 5 find no pairing of 4 or more (4 to 11 peaks), 1 fails the final fit's
+ * chi-square.
  */
 class CalibrationSweepTest {
 
@@ -55,7 +74,7 @@ class CalibrationSweepTest {
     void curvedDispersionsAreSolvedOrRefusedNeverWrong() {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6, Calibrator.defaults());
         assertEquals(0, outcome.wrong(), outcome.toString());
-        assertTrue(outcome.solved() >= 23, outcome.toString());
+        assertTrue(outcome.solved() >= 25, outcome.toString());
         // Where a solution is off by 0.1 to 1 pixel, it says so: the error stays within five of its
         // own stated standard uncertainties.
         assertTrue(outcome.worstImpreciseSigmas() <= 5, outcome.toString());
@@ -71,16 +90,57 @@ class CalibrationSweepTest {
      * 5 pixels away (seed 163: Ne, 1024 pixels, falling; the cubic bent to take it, and the final
      * fit's clipping then rejected the right pair next to it) or 7 pixels away (seed 223), and one
      * refused before (seed 94: Hg+Kr) whose best pairing held such a pair 10 pixels off. The
-     * matcher's leave-one-out check drops such a pair: 163 and 94 are now solved, 223 refused.
+     * matcher's leave-one-out check drops such a pair: 163 was then solved, 223 refused, and 94
+     * solved. Since peaks may be second-order images, seed 94 (11 ghosts in its window) is refused
+     * again, safely: the images of the Hg and Kr lines below 495 nm crowd its window, so its right
+     * pairing's 8 pairs within 0.17 pixel are met by 0.2 chance matches, probability 6.4e-6 over
+     * 4809 pairings tried, 0.031 in all where 0.01 is accepted. With images left out it is solved as
+     * before.
      */
     @Test
     void aLoneEndPairTheOthersDoNotConfirmIsDropped() {
-        for (long seed : new long[] {94, 163}) {
+        CalibrationSweep.Outcome outcome = CalibrationSweep.run(163, 1, 0.6, Calibrator.defaults());
+        assertEquals(1, outcome.solved(), outcome.toString());
+        for (long seed : new long[] {94, 223}) {
+            outcome = CalibrationSweep.run(seed, 1, 0.6, Calibrator.defaults());
+            assertEquals(1, outcome.refused(), outcome.toString());
+        }
+        outcome = CalibrationSweep.run(94, 1, 0.6, Calibrator.defaults().withSecondOrder(false));
+        assertEquals(1, outcome.solved(), outcome.toString());
+    }
+
+    /**
+     * Exposures whose strongest peaks are partly second-order ghosts (a lamp line at half the
+     * wavelength, which a grating without an order-sorting filter puts there), refused while the
+     * matcher knew only the first order, solved now that a peak may be explained as such an image
+     * (counted among the strong peaks matched, never a pair of the fit):
+     * <ul>
+     *   <li>seed 17 (Hg+Ar, 1024 pixels, falling, 12 peaks: 6 lamp lines, 5 ghosts, 1 foreign): the
+     *       right seed triplets died in the neighbour test, every neighbour being a ghost, and 6 of
+     *       12 is below the 60 % share; the best pairing found matched 2 peaks;</li>
+     *   <li>seed 24 (Hg+Ar, 12 peaks, 3 ghosts): the right pairing, 7 pairs within 0.16 pixel,
+     *       failed the chance test (probability 5.7e-6 over 4234 pairings, 0.024 in all);</li>
+     *   <li>seed 38 (Hg+Ne, 10 peaks: 6 lamp lines, 3 foreign, 1 ghost): the best pairing matched
+     *       5 of 10 with a robust reduced chi-square of 14.9 (in part wrong);</li>
+     *   <li>seed 62 (Hg+Kr, 12 peaks, 11 ghosts in the window): 8 pairs within 0.45 pixel, chance
+     *       probability 2.0e-5 over 3605 pairings, 0.072 in all;</li>
+     *   <li>seeds 253 and 373 (Hg+Ar and Hg+Kr with 3 and 2 ghosts, refused by the chance test as
+     *       24 was: 0.039 and 0.070 in all) are solved as well, and seed
+     *       107 (16 ghosts), accepted with 0.39 pixel error, is solved: its ghost peaks no longer
+     *       take part in the final one-to-one assignment.</li>
+     * </ul>
+     * With images switched off ({@code withSecondOrder(false)}, as for a spectrometer with an
+     * order-sorting filter) each is refused, or for 107 imprecise, as before.
+     */
+    @Test
+    void secondOrderGhostsAreExplainedByTheLamp() {
+        for (long seed : new long[] {17, 24, 38, 62, 107, 253, 373}) {
             CalibrationSweep.Outcome outcome = CalibrationSweep.run(seed, 1, 0.6, Calibrator.defaults());
             assertEquals(1, outcome.solved(), outcome.toString());
+            CalibrationSweep.Outcome firstOrderOnly = CalibrationSweep.run(seed, 1, 0.6,
+                    Calibrator.defaults().withSecondOrder(false));
+            assertEquals(0, firstOrderOnly.solved(), firstOrderOnly.toString());
         }
-        CalibrationSweep.Outcome outcome = CalibrationSweep.run(223, 1, 0.6, Calibrator.defaults());
-        assertEquals(1, outcome.refused(), outcome.toString());
     }
 
     /**
