@@ -31,21 +31,37 @@ import org.ritzwerk.refdata.DataLines;
  * 4 pixels, excitation temperature 20,000 to 60,000 K, read noise), no prior. The rule that must hold:
  * no run is accepted with an error above 1 pixel anywhere between its first and last fitted line.
  *
- * <p>Over seeds 1 to 16: 10 solved to 0.15 pixel, 1 accepted with 0.17 pixel (7 pairs, within
- * three of its stated standard uncertainties), 5 refused. Helium has few lines in the red: a
- * window from about 500 nm up holds four to seven (501.6, 504.8, 587.6, 667.8, 706.5, 728.1,
- * 781.6 nm), too few to place with no prior among the lamp's 140 lines, so those runs are refused
- * (some beat chance, but not by the required margin after thousands of pairings tried). With the
- * rough prior a user has (the window to 10 nm, the dispersion to 20 %: {@code --from},
- * {@code --to}, {@code --dispersion-range}) 3 of the 5 are solved, 1 accepted at 0.2 pixel within
- * its stated uncertainty, and 1 (four peaks in 547-837 nm) is still refused. No run, with or
- * without a prior, is accepted with an error beyond 1 pixel or beyond three of its own stated
- * standard uncertainties.
+ * <p>Over seeds 1 to 16: 10 solved to 0.15 pixel and 6 refused. Helium has few lines in the red:
+ * a window from about 500 nm up holds four to seven (501.6, 504.8, 587.6, 667.8, 706.5, 728.1,
+ * 781.6 nm), too few to place with no prior among the lamp's 140 lines and their second-order
+ * images (which the matcher counts by default, so the chance of a match is judged against twice
+ * the line density), so those runs are refused (some beat chance, but not by the required margin
+ * after thousands of pairings tried). With the rough prior a user has (the window to 10 nm, the
+ * dispersion to 20 %: {@code --from}, {@code --to}, {@code --dispersion-range}) 1 of the 6 is
+ * solved, 2 accepted at 0.15 to 0.25 pixel within their stated uncertainties, and 3 are still
+ * refused. With the images off ({@code withSecondOrder(false)}, {@code --no-second-order}, a
+ * spectrometer with an order-sorting filter): 10 solved, 1 at 0.17 pixel, 5 refused, of which 4
+ * are accepted with a prior. No run, with or without a prior, is accepted with
+ * an error beyond 1 pixel or beyond three of its own stated standard uncertainties.
  */
 class HeliumLampSweepTest {
 
     @Test
     void heliumLampsAreSolvedOrRefusedNeverWrong() {
+        sweep(Calibrator.defaults(), 10, 3);
+    }
+
+    /** A spectrometer with an order-sorting filter: the matcher told there are no second-order images. */
+    @Test
+    void withoutSecondOrderImagesFewerRunsAreRefused() {
+        sweep(Calibrator.defaults().withSecondOrder(false), 10, 4);
+    }
+
+    /**
+     * Runs the 16 exposures and asserts: never wrong, at least {@code minSolved} solved with no
+     * prior, and at least {@code minWithPrior} of the refused ones accepted with a rough prior.
+     */
+    private static void sweep(Calibrator calibrator, int minSolved, int minWithPrior) {
         DataContext data = DataContext.builtIn();
         Species he = Species.parse("He I");
         LampSet unmerged = DataLines.lamp(data, he, Medium.air());
@@ -80,7 +96,7 @@ class HeliumLampSweepTest {
                     seed, pixels, start, start + span, change, resolvingPower, temperature);
             Calibration calibration;
             try {
-                calibration = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts).lamp(lamp).build());
+                calibration = calibrator.calibrate(CalibrationProblem.builder(counts).lamp(lamp).build());
             } catch (CalibrationException e) {
                 refused++;
                 notSolved.add(scene + " -> refused: " + e.getMessage());
@@ -90,7 +106,7 @@ class HeliumLampSweepTest {
                         1.2 * span / pixels);
                 Calibration withPrior;
                 try {
-                    withPrior = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts).lamp(lamp)
+                    withPrior = calibrator.calibrate(CalibrationProblem.builder(counts).lamp(lamp)
                             .prior(prior).build());
                 } catch (CalibrationException again) {
                     notSolved.add(scene + " -> with a prior refused too: " + again.getMessage());
@@ -117,8 +133,8 @@ class HeliumLampSweepTest {
         String outcome = solved + " solved, " + imprecise + " imprecise, " + refused + " refused (with a prior "
                 + solvedWithPrior + " solved, " + impreciseWithPrior + " imprecise)\n  " + String.join("\n  ", notSolved);
         assertEquals(16, solved + imprecise + refused, outcome);
-        assertTrue(solved >= 10, outcome);
-        assertTrue(solvedWithPrior + impreciseWithPrior >= 4, outcome);
+        assertTrue(solved >= minSolved, outcome);
+        assertTrue(solvedWithPrior + impreciseWithPrior >= minWithPrior, outcome);
     }
 
     /** The largest error over the solution's stated standard uncertainty, same range. */
