@@ -134,6 +134,12 @@ final class CalibrateCommand implements Callable<Integer> {
                     + "for a spectrometer with an order-sorting filter, where such ghosts cannot occur.")
     boolean noSecondOrder;
 
+    @Option(names = "--required-precision", paramLabel = "PIXELS",
+            description = "Refuse (exit 2) a solution whose stated standard uncertainty exceeds PIXELS anywhere "
+                    + "between its first and last fitted line, instead of printing it; 0.05 for work that needs "
+                    + "every wavelength within 0.1 pixel. Default: none (the report states the largest uncertainty).")
+    Double requiredPrecision;
+
     @Option(names = "--clip", paramLabel = "K", defaultValue = "3.5",
             description = "Reject pairs beyond K robust standard deviations, one at a time. Default: ${DEFAULT-VALUE}.")
     double clip;
@@ -205,7 +211,7 @@ final class CalibrateCommand implements Callable<Integer> {
         if (apply != null) {
             for (String option : new String[] {"--lamp", "--lines", "--medium", "--from", "--to", "--dispersion-range",
                 "--degree", "--max-degree", "--threshold", "--saturation", "--tolerance", "--min-matched", "--min-strength",
-                "--no-second-order", "--clip", "--plot", "--format", "--data"}) {
+                "--no-second-order", "--required-precision", "--clip", "--plot", "--format", "--data"}) {
                 rules.refuseUnless(option, false, "with --apply (the saved solution is applied as it is; "
                         + "--out is the only option --apply takes)");
             }
@@ -227,6 +233,10 @@ final class CalibrateCommand implements Callable<Integer> {
         OptionRules.range("--tolerance", tolerance, 0, false, 1e9, "a distance in pixels above 0 (e.g. 3)");
         OptionRules.range("--min-matched", minMatched, 0, true, 1, "a fraction from 0 to 1 (e.g. 0.6)");
         OptionRules.range("--clip", clip, 1, true, 1e12, "a number of standard deviations of at least 1 (e.g. 3.5)");
+        if (requiredPrecision != null) {
+            OptionRules.range("--required-precision", requiredPrecision, 0, false, 1e6,
+                    "a standard uncertainty in pixels above 0 (e.g. 0.05)");
+        }
         if (saturation != null) {
             OptionRules.range("--saturation", saturation, 0, false, 1e15, "a number of counts above 0 and at most 1e15");
         }
@@ -248,6 +258,7 @@ final class CalibrateCommand implements Callable<Integer> {
                 .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(!noSecondOrder);
         calibrator = degree.equals("auto") ? calibrator.withAutomaticDegree(maxDegree)
                 : calibrator.withDegree(parseDegree());
+        calibrator = requiredPrecision == null ? calibrator : calibrator.withRequiredPrecision(requiredPrecision);
         return saturation == null ? calibrator : calibrator.withSaturationLevel(saturation);
     }
 
@@ -379,6 +390,9 @@ final class CalibrateCommand implements Callable<Integer> {
                 solution.rmsNm(), solution.rmsPixels(), solution.reducedChiSquare());
         w.printf(Locale.ROOT, "Coverage: lines from pixel %.1f to %.1f, %.0f %% of the detector%n",
                 calibration.lowestUsedPixel(), calibration.highestUsedPixel(), 100 * calibration.coverage());
+        double at = calibration.largestSigmaAtPixel();
+        w.printf(Locale.ROOT, "Largest stated uncertainty between those lines: %.3g pixel (%.2g nm) near pixel %.1f%n",
+                calibration.largestSigmaPixels(), solution.wavelengthSigmaAt(at), at);
         w.println();
         LampMatch match = calibration.match();
         LampMatch saturatedPairs = calibration.saturatedPairs();

@@ -2,6 +2,7 @@ package org.ritzwerk.cli;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
@@ -225,6 +226,43 @@ class CalibrateCommandTest {
         String[] rows = csv.out().split("\n");
         assertEquals("pixel,pixel_sigma,line,wavelength_nm,solution_nm,residual_nm,residual_pixels,used,flag", rows[0]);
         assertTrue(rows.length > 10, csv.out());
+    }
+
+    /**
+     * The report states the largest standard uncertainty between the first and last fitted line
+     * (the library's Calibration.largestSigmaPixels); --required-precision below it refuses with
+     * exit 2 and the figures and writes no file, above it changes nothing.
+     */
+    @Test
+    void aRequiredPrecisionRefusesALessPreciseSolution(@TempDir Path dir) throws IOException {
+        Path spectrum = lampSpectrum(dir, 11, false);
+        CliTest.Run run = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I");
+        assertEquals(0, run.code(), run.err());
+        java.util.regex.Matcher m = java.util.regex.Pattern
+                .compile("Largest stated uncertainty between those lines: ([0-9.eE+-]+) pixel").matcher(run.out());
+        assertTrue(m.find(), run.out());
+        double largest = Double.parseDouble(m.group(1));
+        SpectrumFiles.Spectrum counts = SpectrumFiles.read(spectrum);
+        LampSet neon = LampSet.of(List.of(DataRegistry.builtIn().lampLines(Species.parse("Ne I"))), Medium.air());
+        Calibration job = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts.counts()).lamp(neon)
+                .build());
+        assertEquals(job.largestSigmaPixels(), largest, largest * 5e-3);
+
+        Path out = dir.resolve("calibration.json");
+        CliTest.Run strict = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--required-precision",
+                String.valueOf(largest / 2), "--out", out.toString());
+        assertEquals(2, strict.code(), strict.err());
+        assertTrue(strict.err().contains("stated standard uncertainty of") && strict.err().contains("above the required"),
+                strict.err());
+        assertFalse(Files.exists(out));
+        CliTest.Run loose = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--required-precision",
+                String.valueOf(largest * 2));
+        assertEquals(0, loose.code(), loose.err());
+        assertEquals(run.out(), loose.out());
+        CliTest.Run bad = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--required-precision", "0");
+        assertEquals(2, bad.code());
+        assertTrue(bad.err().contains("--required-precision must be a standard uncertainty in pixels above 0"),
+                bad.err());
     }
 
     @Test

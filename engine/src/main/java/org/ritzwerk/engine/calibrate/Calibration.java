@@ -161,6 +161,42 @@ public final class Calibration {
         return highest;
     }
 
+    /**
+     * The largest stated standard uncertainty of the solution, in pixels (the wavelength's
+     * standard uncertainty over the local dispersion), at 201 evenly spaced pixels from the lowest
+     * to the highest pixel used; the ends of that range are where it is usually largest. What a
+     * user who needs a given precision compares with ({@link Calibrator#withRequiredPrecision}).
+     *
+     * @return the uncertainty in pixels; NaN when the solution has no covariance
+     */
+    public double largestSigmaPixels() {
+        return largestSigma()[0];
+    }
+
+    /** @return the pixel where {@link #largestSigmaPixels()} is reached */
+    public double largestSigmaAtPixel() {
+        return largestSigma()[1];
+    }
+
+    private double[] largestSigma() {
+        double from = lowestUsedPixel();
+        double to = highestUsedPixel();
+        double worst = Double.NEGATIVE_INFINITY;
+        double at = from;
+        for (int s = 0; s <= 200; s++) {
+            double p = from + (to - from) * s / 200.0;
+            double sigma = solution.wavelengthSigmaAt(p) / Math.abs(solution.dispersionAt(p));
+            if (Double.isNaN(sigma)) {
+                return new double[] {Double.NaN, Double.NaN};
+            }
+            if (sigma > worst) {
+                worst = sigma;
+                at = p;
+            }
+        }
+        return new double[] {worst, at};
+    }
+
     /** @return the fraction of the detector between the lowest and highest pixel used, 0 to 1 */
     public double coverage() {
         return (highestUsedPixel() - lowestUsedPixel()) / Math.max(1, problem.pixels() - 1);

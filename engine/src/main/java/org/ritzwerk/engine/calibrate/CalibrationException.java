@@ -30,6 +30,11 @@ public final class CalibrationException extends RitzwerkException {
      */
     public static final String IMPLAUSIBLE_FIT = "calibrate.implausible-fit";
     /**
+     * Code: the solution's stated standard uncertainty exceeds the required precision somewhere
+     * between its first and last fitted line ({@link Calibrator#withRequiredPrecision}).
+     */
+    public static final String IMPRECISE = "calibrate.imprecise";
+    /**
      * Code: the counts cannot be searched for peaks: too few pixels, every pixel the same or
      * saturated, or negative counts where none are allowed.
      */

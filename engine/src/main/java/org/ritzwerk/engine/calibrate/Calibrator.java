@@ -47,9 +47,11 @@ public final class Calibrator {
     private final int maxDegree;
     private final double maxChi2;
     private final boolean secondOrder;
+    private final double requiredPrecision;
 
     private Calibrator(double threshold, double saturation, boolean negativeCountsAllowed, double tolerance,
-            double minMatched, double clip, int degree, int maxDegree, double maxChi2, boolean secondOrder) {
+            double minMatched, double clip, int degree, int maxDegree, double maxChi2, boolean secondOrder,
+            double requiredPrecision) {
         this.threshold = threshold;
         this.saturation = saturation;
         this.negativeCountsAllowed = negativeCountsAllowed;
@@ -60,6 +62,7 @@ public final class Calibrator {
         this.maxDegree = maxDegree;
         this.maxChi2 = maxChi2;
         this.secondOrder = secondOrder;
+        this.requiredPrecision = requiredPrecision;
     }
 
     /**
@@ -71,7 +74,8 @@ public final class Calibrator {
      */
     public static Calibrator defaults() {
         return new Calibrator(PeakFinder.DEFAULT_THRESHOLD, Double.NaN, true, DEFAULT_TOLERANCE, DEFAULT_MIN_MATCHED,
-                DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE, DEFAULT_MAX_REDUCED_CHI_SQUARE, true);
+                DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE, DEFAULT_MAX_REDUCED_CHI_SQUARE, true,
+                Double.POSITIVE_INFINITY);
     }
 
     /**
@@ -81,7 +85,7 @@ public final class Calibrator {
     public Calibrator withThreshold(double snr) {
         PeakFinder.defaults().withThreshold(snr); // validates
         return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder);
+                maxDegree, maxChi2, secondOrder, requiredPrecision);
     }
 
     /**
@@ -92,7 +96,7 @@ public final class Calibrator {
     public Calibrator withSaturationLevel(double counts) {
         PeakFinder.defaults().withSaturationLevel(counts); // validates
         return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder);
+                maxDegree, maxChi2, secondOrder, requiredPrecision);
     }
 
     /**
@@ -101,7 +105,7 @@ public final class Calibrator {
      */
     public Calibrator withNegativeCountsAllowed(boolean allowed) {
         return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder);
+                maxDegree, maxChi2, secondOrder, requiredPrecision);
     }
 
     /**
@@ -111,7 +115,7 @@ public final class Calibrator {
     public Calibrator withTolerance(double pixels) {
         LampMatcher.defaults().withTolerance(pixels); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder);
+                maxDegree, maxChi2, secondOrder, requiredPrecision);
     }
 
     /**
@@ -122,7 +126,7 @@ public final class Calibrator {
     public Calibrator withMinMatchedFraction(double fraction) {
         LampMatcher.defaults().withMinInlierFraction(fraction); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree,
-                maxDegree, maxChi2, secondOrder);
+                maxDegree, maxChi2, secondOrder, requiredPrecision);
     }
 
     /**
@@ -132,7 +136,7 @@ public final class Calibrator {
     public Calibrator withClipping(double k) {
         DispersionFit.automatic(1).withClipping(k, DispersionFit.DEFAULT_CLIP_ITERATIONS); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree,
-                maxDegree, maxChi2, secondOrder);
+                maxDegree, maxChi2, secondOrder, requiredPrecision);
     }
 
     /**
@@ -142,7 +146,7 @@ public final class Calibrator {
     public Calibrator withDegree(int fixedDegree) {
         DispersionFit.ofDegree(fixedDegree); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, fixedDegree,
-                maxDegree, maxChi2, secondOrder);
+                maxDegree, maxChi2, secondOrder, requiredPrecision);
     }
 
     /**
@@ -152,7 +156,7 @@ public final class Calibrator {
     public Calibrator withAutomaticDegree(int highest) {
         DispersionFit.automatic(highest); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest,
-                maxChi2, secondOrder);
+                maxChi2, secondOrder, requiredPrecision);
     }
 
     /**
@@ -167,7 +171,7 @@ public final class Calibrator {
                     + limit);
         }
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, limit, secondOrder);
+                maxDegree, limit, secondOrder, requiredPrecision);
     }
 
     /**
@@ -178,7 +182,32 @@ public final class Calibrator {
      */
     public Calibrator withSecondOrder(boolean considered) {
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, considered);
+                maxDegree, maxChi2, considered, requiredPrecision);
+    }
+
+    /**
+     * Requires a precision: a solution whose stated standard uncertainty exceeds the given number
+     * of pixels anywhere from its lowest to its highest fitted line
+     * ({@link Calibration#largestSigmaPixels()}) is refused with a {@link CalibrationException}
+     * ({@link CalibrationException#IMPRECISE}) that says where, instead of being returned. For work
+     * that needs every wavelength within 0.1 pixel, 0.05 (two standard uncertainties) is the usual
+     * choice. None by default: the solution comes with its uncertainty, and the caller judges it.
+     *
+     * @param pixels the largest accepted standard uncertainty in pixels, positive and finite
+     * @return a solver with that requirement
+     */
+    public Calibrator withRequiredPrecision(double pixels) {
+        if (!(pixels > 0) || Double.isInfinite(pixels)) {
+            throw new IllegalArgumentException("the required precision must be a positive, finite number of pixels, got "
+                    + pixels);
+        }
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder, pixels);
+    }
+
+    /** @return the largest accepted stated standard uncertainty in pixels; infinite when none is required */
+    public double requiredPrecision() {
+        return requiredPrecision;
     }
 
     /** @return whether peaks may be explained as second-order images of the lamp's lines */
@@ -285,7 +314,29 @@ public final class Calibrator {
         if (any) {
             solution = solution.withPairFlags(notes);
         }
-        return new Calibration(problem, this, peaks, first, fitted, refined.subset(saturatedOnly), solution);
+        Calibration calibration = new Calibration(problem, this, peaks, first, fitted, refined.subset(saturatedOnly),
+                solution);
+        checkPrecision(calibration);
+        return calibration;
+    }
+
+    /** Refuses a solution less precise than required, saying where and what would help. */
+    private void checkPrecision(Calibration calibration) {
+        if (Double.isInfinite(requiredPrecision)) {
+            return;
+        }
+        double sigma = calibration.largestSigmaPixels();
+        if (!(sigma <= requiredPrecision)) {
+            double at = calibration.largestSigmaAtPixel();
+            DispersionSolution solution = calibration.solution();
+            throw new CalibrationException(CalibrationException.IMPRECISE, String.format(Locale.ROOT,
+                    "%s: the solution (degree %d, %d lines from pixel %.1f to %.1f) has a stated standard uncertainty "
+                            + "of %.3g pixels (%.3g nm) near pixel %.0f, above the required %.3g pixels; lamp lines "
+                            + "near that end, a longer exposure (more counts in the weak lines) or a lower degree "
+                            + "would tighten it", calibration.problem().source(), solution.degree(),
+                    solution.usedCount(), calibration.lowestUsedPixel(), calibration.highestUsedPixel(), sigma,
+                    solution.wavelengthSigmaAt(at), at, requiredPrecision));
+        }
     }
 
     /**
@@ -327,6 +378,6 @@ public final class Calibrator {
         return "Calibrator[threshold=" + threshold + ", saturation=" + saturation + ", tolerance=" + tolerance
                 + " px, minMatched=" + minMatched + ", clip=" + clip + ", degree="
                 + (degree > 0 ? Integer.toString(degree) : "auto<=" + maxDegree) + ", maxReducedChiSquare=" + maxChi2
-                + ", secondOrder=" + secondOrder + "]";
+                + ", secondOrder=" + secondOrder + ", requiredPrecision=" + requiredPrecision + " px]";
     }
 }

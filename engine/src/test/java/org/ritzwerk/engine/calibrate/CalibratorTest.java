@@ -130,4 +130,37 @@ class CalibratorTest {
         assertTrue(nan.getMessage().startsWith("lamp.csv: "), nan.getMessage());
         assertThrows(IllegalArgumentException.class, () -> LampSet.of(List.of(), Medium.air()));
     }
+
+    /**
+     * The largest stated uncertainty over the fitted range is the solution's own, converted to
+     * pixels by the local dispersion and largest at an end; a required precision tighter than it
+     * refuses with the figures, a looser one changes nothing, and nonsense requirements are refused.
+     */
+    @Test
+    void aRequiredPrecisionIsCheckedAgainstTheStatedUncertainty() {
+        double[] counts = new LampScene(40, 7, 8).exposure(1);
+        LampSet lamp = LampSet.of(List.of(neonList(Medium.air())), Medium.air());
+        CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(lamp).build();
+        Calibration job = Calibrator.defaults().calibrate(problem);
+        DispersionSolution s = job.solution();
+        double largest = job.largestSigmaPixels();
+        double at = job.largestSigmaAtPixel();
+        assertEquals(s.wavelengthSigmaAt(at) / Math.abs(s.dispersionAt(at)), largest, 0.0);
+        for (double p = job.lowestUsedPixel(); p <= job.highestUsedPixel(); p += 7) {
+            assertTrue(s.wavelengthSigmaAt(p) / Math.abs(s.dispersionAt(p)) <= largest * (1 + 1e-9), "at " + p);
+        }
+        assertTrue(largest > 0 && largest < 0.2, "largest " + largest);
+
+        CalibrationException e = assertThrows(CalibrationException.class,
+                () -> Calibrator.defaults().withRequiredPrecision(largest / 2).calibrate(problem));
+        assertEquals(CalibrationException.IMPRECISE, e.code());
+        assertTrue(e.getMessage().contains("stated standard uncertainty"), e.getMessage());
+        Calibration loose = Calibrator.defaults().withRequiredPrecision(largest * 2).calibrate(problem);
+        assertArrayEquals(s.scaledCoefficients(), loose.solution().scaledCoefficients(), 0.0);
+        assertEquals(Double.POSITIVE_INFINITY, Calibrator.defaults().requiredPrecision());
+
+        for (double bad : new double[] {0, -0.1, Double.NaN, Double.POSITIVE_INFINITY}) {
+            assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withRequiredPrecision(bad));
+        }
+    }
 }
