@@ -151,6 +151,48 @@ class RydbergHyperfineTest {
         assertTrue(DATA.constants(CONTEXT, RB87, State.of(5, 1, 1)).isEmpty());
     }
 
+    /**
+     * Na, K and Li nP: scaled as n*^-3 from each isotope's first p constants (hyperfine-constants.csv),
+     * checked at the second p level against constants recalled from E. Arimondo, M. Inguscio and
+     * P. Violino, Rev. Mod. Phys. 49, 31 (1977) (from memory), which the scaling gives 1-8 % low.
+     */
+    @Test
+    void sodiumPotassiumAndLithiumNPFromTheirFirstPLevel() {
+        Object[][] cases = {
+            // species, first p n, second p n, 2j, recalled A at the second p level (MHz), declared tolerance
+            {"Na-23 I", 3, 4, 1, 30.6, 0.06}, {"Na-23 I", 3, 4, 3, 6.01, 0.06},
+            {"K-39 I", 4, 5, 1, 8.99, 0.02}, {"K-39 I", 4, 5, 3, 1.969, 0.02},
+            {"Li-7 I", 2, 3, 1, 13.5, 0.02}, {"Li-7 I", 2, 3, 3, -0.965, 0.10},
+        };
+        for (Object[] c : cases) {
+            Species species = Species.parse((String) c[0]);
+            int first = (Integer) c[1];
+            int second = (Integer) c[2];
+            int twoJ = (Integer) c[3];
+            double recalled = (Double) c[4];
+            String what = c[0] + " " + second + "p" + twoJ + "/2";
+            var atom = CONTEXT.alkaliAtom(species);
+            double a1 = CONTEXT.alkaliHyperfine().constants(species, State.of(first, 1, twoJ)).orElseThrow()
+                    .constants().aHertz() / 1e6;
+            // the first p level keeps its measured constant; the row serves from the next member up
+            assertTrue(DATA.constants(CONTEXT, species, State.of(first, 1, twoJ)).isEmpty(), what);
+            double ratio = atom.level(State.of(first, 1, twoJ)).effectiveN()
+                    / atom.level(State.of(second, 1, twoJ)).effectiveN();
+            assertEquals(a1 * Math.pow(ratio, 3), aMHz(species, State.of(second, 1, twoJ)), 1e-9, what);
+            assertEquals(recalled, aMHz(species, State.of(second, 1, twoJ)), (Double) c[5] * Math.abs(recalled), what);
+            double n30 = atom.level(State.of(30, 1, twoJ)).effectiveN();
+            double n1 = atom.level(State.of(first, 1, twoJ)).effectiveN();
+            assertEquals(a1 * Math.pow(n1 / n30, 3), aMHz(species, State.of(30, 1, twoJ)), 1e-12, what);
+        }
+        // Na 30p1/2: 36 kHz; the p3/2 quadrupole constant scales with it (2.724 MHz at 3p3/2)
+        assertEquals(0.0362, aMHz(Species.parse("Na-23 I"), State.of(30, 1, 1)), 0.0001);
+        HyperfineConstants na32 = DATA.constants(CONTEXT, Species.parse("Na-23 I"), State.of(4, 1, 3)).orElseThrow();
+        assertEquals(2.724 * 5.71920 / 18.534, na32.bHertz() / 1e6, 1e-4);
+        // K-40 (negative moment) and Li-6 borrow these rows by their ground-level ratios
+        assertEquals(8.89359 * -285.7308 / 230.8598601, aMHz(Species.parse("K-40 I"), State.of(5, 1, 1)), 1e-4);
+        assertEquals(13.37668 * 152.1368407 / 401.7520433, aMHz(Species.parse("Li-6 I"), State.of(3, 1, 1)), 1e-4);
+    }
+
     @Test
     void anIsotopeWithoutItsOwnRowBorrowsByTheGroundLevelRatio() {
         // Rb-85 6p1/2 from the Rb-87 row times A(Rb-85 5s) / A(Rb-87 5s) = 0.296111: 39.25 MHz, against the
@@ -217,10 +259,11 @@ class RydbergHyperfineTest {
     void levelsWithoutAScalingOrBelowItsRangeHaveNone() {
         assertTrue(DATA.constants(CONTEXT, CS, State.of(40, 3, 7)).isEmpty(), "no Cs nF scaling here");
         assertTrue(DATA.constants(CONTEXT, CS, State.of(6, 0, 1)).isEmpty(), "6s is below from-n (measured elsewhere)");
-        assertTrue(DATA.constants(CONTEXT, Species.parse("Na-23 I"), State.of(40, 1, 1)).isEmpty(), "no Na nP here");
+        assertTrue(DATA.constants(CONTEXT, Species.parse("Na-23 I"), State.of(40, 2, 3)).isEmpty(), "no Na nD here");
         assertTrue(DATA.fLevels(CONTEXT, CS, State.of(40, 3, 7)).isEmpty());
         assertTrue(DATA.constants(CONTEXT, RB87, State.of(40, 3, 5)).isEmpty(), "no Rb nF scaling here");
-        assertTrue(DATA.constants(CONTEXT, Species.parse("K-39 I"), State.of(40, 1, 1)).isEmpty(), "no K nP here");
+        assertTrue(DATA.constants(CONTEXT, Species.parse("K-39 I"), State.of(40, 2, 5)).isEmpty(), "no K nD here");
+        assertTrue(DATA.constants(CONTEXT, Species.parse("Li-7 I"), State.of(40, 2, 3)).isEmpty(), "no Li nD here");
         // a borrowed row keeps its from-n: Rb-85 5d3/2 is below the Rb-87 row's from-n = 7
         assertTrue(DATA.constants(CONTEXT, Species.parse("Rb-85 I"), State.of(5, 2, 3)).isEmpty());
     }
