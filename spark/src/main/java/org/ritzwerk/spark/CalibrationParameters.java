@@ -34,6 +34,10 @@ import org.ritzwerk.medium.Medium;
  * @param priorToNm         highest such wavelength; NaN with priorFromNm
  * @param minDispersion     lowest dispersion, nm per pixel (negative when wavelength falls)
  * @param maxDispersion     highest dispersion, nm per pixel
+ * @param secondOrder       whether a peak may be the second-order image of a lamp line (the
+ *                          command's default; false as {@code --no-second-order})
+ * @param requiredPrecision the largest accepted stated standard uncertainty, pixels, between the
+ *                          first and last fitted line ({@code --required-precision}); NaN for none
  *
  * <p>Serialisable only to travel from the driver to the executors of the same version, so the
  * serialised form is not part of the API.
@@ -43,7 +47,7 @@ import org.ritzwerk.medium.Medium;
 public record CalibrationParameters(List<String> lamps, List<String> lineSets, List<String> dataFiles, String medium,
         String minStrength, double threshold, double tolerancePixels, double minMatched, double clip, int degree,
         int maxDegree, double saturation, double priorFromNm, double priorToNm, double minDispersion,
-        double maxDispersion) implements Serializable {
+        double maxDispersion, boolean secondOrder, double requiredPrecision) implements Serializable {
 
     private static final long serialVersionUID = 1L;
 
@@ -66,6 +70,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @param priorToNm       as above
      * @param minDispersion   as above
      * @param maxDispersion   as above
+     * @param secondOrder     as above
+     * @param requiredPrecision as above
      */
     public CalibrationParameters {
         lamps = List.copyOf(lamps);
@@ -81,7 +87,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
         if (Double.isNaN(priorFromNm) != Double.isNaN(priorToNm)) {
             throw new IllegalArgumentException("priorFromNm and priorToNm must both be given or both be NaN");
         }
-        calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation);
+        calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
+                requiredPrecision);
         prior(priorFromNm, priorToNm, minDispersion, maxDispersion);
     }
 
@@ -89,13 +96,14 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @param lamps    species of built-in lamp sets
      * @param lineSets data-set ids or line-list files
      * @return the {@code calibrate} command's defaults: air, every strength, threshold 5, tolerance
-     *         3 pixels, 60 % matched, clipping at 3.5, automatic degree up to 3, no saturation, no prior
+     *         3 pixels, 60 % matched, clipping at 3.5, automatic degree up to 3, no saturation, no prior,
+     *         second-order images considered, no required precision
      */
     public static CalibrationParameters of(List<String> lamps, List<String> lineSets) {
         return new CalibrationParameters(lamps, lineSets, List.of(), "air", null, PeakFinder.DEFAULT_THRESHOLD,
                 Calibrator.DEFAULT_TOLERANCE, Calibrator.DEFAULT_MIN_MATCHED, DispersionFit.DEFAULT_CLIP, 0,
                 Calibrator.DEFAULT_MAX_DEGREE, Double.NaN, Double.NaN, Double.NaN,
-                LampMatcher.Prior.none().minDispersion(), LampMatcher.Prior.none().maxDispersion());
+                LampMatcher.Prior.none().minDispersion(), LampMatcher.Prior.none().maxDispersion(), true, Double.NaN);
     }
 
     /**
@@ -105,7 +113,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withMedium(String mediumSpec) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, mediumSpec, minStrength, threshold,
                 tolerancePixels, minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion,
-                maxDispersion);
+                maxDispersion, secondOrder, requiredPrecision);
     }
 
     /**
@@ -114,7 +122,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withDataFiles(List<String> files) {
         return new CalibrationParameters(lamps, lineSets, files, medium, minStrength, threshold, tolerancePixels,
-                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion);
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion, secondOrder, requiredPrecision);
     }
 
     /**
@@ -124,7 +132,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withDegree(int fixed, int highest) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
-                minMatched, clip, fixed, highest, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion);
+                minMatched, clip, fixed, highest, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion, secondOrder, requiredPrecision);
     }
 
     /**
@@ -133,7 +141,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withSaturation(double counts) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
-                minMatched, clip, degree, maxDegree, counts, priorFromNm, priorToNm, minDispersion, maxDispersion);
+                minMatched, clip, degree, maxDegree, counts, priorFromNm, priorToNm, minDispersion, maxDispersion, secondOrder, requiredPrecision);
     }
 
     /**
@@ -145,19 +153,43 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withPrior(double fromNm, double toNm, double minNmPerPixel, double maxNmPerPixel) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
-                minMatched, clip, degree, maxDegree, saturation, fromNm, toNm, minNmPerPixel, maxNmPerPixel);
+                minMatched, clip, degree, maxDegree, saturation, fromNm, toNm, minNmPerPixel, maxNmPerPixel, secondOrder, requiredPrecision);
+    }
+
+    /**
+     * @param considered whether a peak may be the second-order image of a lamp line
+     * @return a copy
+     */
+    public CalibrationParameters withSecondOrder(boolean considered) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                considered, requiredPrecision);
+    }
+
+    /**
+     * @param pixels the largest accepted stated standard uncertainty between the first and last
+     *               fitted line; a less precise solution is refused in its row (failure code
+     *               {@code calibrate.imprecise})
+     * @return a copy
+     */
+    public CalibrationParameters withRequiredPrecision(double pixels) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                secondOrder, pixels);
     }
 
     /** @return the calibrator these settings describe (as the command configures it) */
     Calibrator calibrator() {
-        return calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation);
+        return calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
+                requiredPrecision);
     }
 
     private static Calibrator calibrator(double threshold, double tolerancePixels, double minMatched, double clip,
-            int degree, int maxDegree, double saturation) {
+            int degree, int maxDegree, double saturation, boolean secondOrder, double requiredPrecision) {
         Calibrator calibrator = Calibrator.defaults().withThreshold(threshold).withTolerance(tolerancePixels)
-                .withMinMatchedFraction(minMatched).withClipping(clip);
+                .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(secondOrder);
         calibrator = degree == 0 ? calibrator.withAutomaticDegree(maxDegree) : calibrator.withDegree(degree);
+        calibrator = Double.isNaN(requiredPrecision) ? calibrator : calibrator.withRequiredPrecision(requiredPrecision);
         return Double.isNaN(saturation) ? calibrator : calibrator.withSaturationLevel(saturation);
     }
 

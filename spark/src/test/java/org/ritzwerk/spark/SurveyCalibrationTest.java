@@ -140,6 +140,39 @@ class SurveyCalibrationTest {
         calibrations.unpersist();
     }
 
+    /**
+     * The command's --required-precision and --no-second-order reach the operation: a solution
+     * less precise than required is refused in its row with the library's code and message, and
+     * one within it is the library's, bit for bit.
+     */
+    @Test
+    void aRequiredPrecisionRefusesInTheRowAsTheLibraryDoes() {
+        SparkSession spark = LocalSpark.session();
+        DataContext data = DataContext.builtIn();
+        double[] counts = Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.0, 9L);
+        Dataset<Row> table = spark.createDataFrame(List.of(RowFactory.create("lamp-1", counts, null)),
+                Schemas.EXPOSURES);
+        LampSet neon = LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
+        CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(neon).source("lamp-1").build();
+        double stated = Calibrator.defaults().withSecondOrder(false).calibrate(problem).largestSigmaPixels();
+
+        CalibrationParameters strict = CalibrationParameters.of(List.of("Ne I"), List.of()).withSecondOrder(false)
+                .withRequiredPrecision(stated / 2);
+        Row refusedRow = SurveyCalibration.of(strict).calibrate(table).collectAsList().get(0);
+        CalibrationException refused = org.junit.jupiter.api.Assertions.assertThrows(CalibrationException.class,
+                () -> Calibrator.defaults().withSecondOrder(false).withRequiredPrecision(stated / 2).calibrate(problem));
+        assertEquals(CalibrationException.IMPRECISE, refusedRow.getAs("failure_code"));
+        assertEquals(refused.getMessage(), refusedRow.getAs("failure"));
+
+        CalibrationParameters loose = strict.withRequiredPrecision(stated * 2);
+        Row row = SurveyCalibration.of(loose).calibrate(table).collectAsList().get(0);
+        assertNull(row.getAs("failure"));
+        DispersionSolution s = Calibrator.defaults().withSecondOrder(false).calibrate(problem).solution();
+        assertArrayEquals(s.polynomial().coefficients(), doubles(row.getList(6)));
+        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                () -> CalibrationParameters.of(List.of("Ne I"), List.of()).withRequiredPrecision(-1));
+    }
+
     @Test
     void aMalformedExposureFailsTheJobNamingItsIdAndField() {
         SparkSession spark = LocalSpark.session();
