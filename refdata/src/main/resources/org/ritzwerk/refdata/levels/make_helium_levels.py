@@ -44,8 +44,8 @@ the larger of (a) the size of the last term kept, |E(n) - E(n) with that coeffic
 kept), and (b) for the three-term series, the change of the prediction from the two-term fit of
 n = 3, 4 (what leaving out the n = 2 level and the d4 term does); rounded up to two digits.
 Fine structure beyond n = 4: 3P1 and 3P0 are 3P2 plus the n = 4 splittings scaled as (4/n)^3, 3D2
-and 3D1 are 3D3 plus the n = 3 splittings (the 4d 3D2 and 3D1 levels are not in the list) scaled
-as (3/n)^3 (check 3: the 3P splittings follow n^-3 within 8 %), each with 15 % of its splitting
+and 3D1 are 3D3 plus the n = 3 splittings scaled as (3/n)^3, from n = 4 on (the 4d 3D2 and 3D1
+levels are not recalled, so they are computed this way too and written beside the recalled 4d 3D3) (check 3: the 3P splittings follow n^-3 within 8 %), each with 15 % of its splitting
 added in quadrature to the uncertainty of its series' level. The 1snf levels are not predicted
 (no recalled level at n <= 4 to fit). N_MAX = 10: the strong discharge lines of singly excited
 He I come from n <= 7 and the 2p - nd and 2s - np series' members fade as about n^-3 beyond;
@@ -117,7 +117,8 @@ LINES = [
     ([("1s2p 3P2", "1s4s 3S1", 5), ("1s2p 3P1", "1s4s 3S1", 3)], 471.3146, "2p 3P2,1 - 4s 3S1"),
     ([("1s2p 3P2", "1s3d 3D3", 84), ("1s2p 3P2", "1s3d 3D2", 15), ("1s2p 3P2", "1s3d 3D1", 1),
       ("1s2p 3P1", "1s3d 3D2", 45), ("1s2p 3P1", "1s3d 3D1", 15)], 587.5621, "2p 3P2,1 - 3d 3D"),
-    ([("1s2p 3P2", "1s4d 3D3", 100), ("1s2p 3P1", "1s4d 3D3", 60)], 447.1479, "2p 3P2,1 - 4d 3D (3D3 for all)"),
+    ([("1s2p 3P2", "1s4d 3D3", 84), ("1s2p 3P2", "1s4d 3D2", 15), ("1s2p 3P2", "1s4d 3D1", 1),
+      ("1s2p 3P1", "1s4d 3D2", 45), ("1s2p 3P1", "1s4d 3D1", 15)], 447.1479, "2p 3P2,1 - 4d 3D"),
 ]
 
 # Lines from n = 5 and 6 in the same strong-lines table (same edition), air wavelengths in nm, from
@@ -285,8 +286,27 @@ def truncation_rule_check(out):
         assert abs(miss) <= u_last, s
 
 
+def fine_structure_n4(energy):
+    """The 4d 3D2 and 3D1 levels, not recalled: 4d 3D3 plus the n = 3 splittings scaled as (3/4)^3
+    (as for n >= 5; check 3 shows the 3P splittings follow n^-3 within 8 %), u the half unit of 4d 3D3
+    and 15 % of the splitting. Returns (label, J, energy text, u, note) rows."""
+    rows = []
+    base = "1s4d 3D3"
+    for j in ("2", "1"):
+        split = (energy["1s3d 3D" + j] - energy["1s3d 3D3"]) * (3 / 4) ** 3
+        e = energy[base] + split
+        u = round_up(math.sqrt(half_unit("191444.4822") ** 2 + (FINE_SCALING_U * split) ** 2))
+        rows.append(("1s4d 3D" + j, j, "%.4f" % e, u, "computed: %s plus the n = 3 splitting scaled as n^-3 (%+.5f "
+                     "cm-1); u adds %.0f %% of the splitting" % (base, split, 100 * FINE_SCALING_U)))
+    return rows
+
+
 def main():
     energy = {label: float(e) for label, _, e, _, _ in LEVELS}
+    n4_rows = fine_structure_n4(energy)
+    for label, _, e, _, _ in n4_rows:
+        energy[label] = float(e)
+    computed_n4 = {row[0] for row in n4_rows}
     notes = {}
     out = []
     out.append("He I level checks (make_helium_levels.py)")
@@ -317,7 +337,7 @@ def main():
     for term, parts in (("3P", ("2", "1", "0")), ("3D", ("3", "2", "1"))):
         for n in (2, 3, 4):
             ls = ["1s%d%s %s%s" % (n, term[1].lower(), term, j) for j in parts]
-            if all(x in energy for x in ls):
+            if all(x in energy for x in ls) and not any(x in computed_n4 for x in ls):
                 split = energy[ls[2]] - energy[ls[0]]
                 ref = None
                 for m in (2, 3):
@@ -337,8 +357,13 @@ def main():
     rows = []
     for label, j, e, _, _ in LEVELS:
         rows.append("He I,%s,%s,%s,%s,from memory; %s" % (label, e, "%g" % half_unit(e), j, notes[label]))
+        if label == "1s4d 3D3":
+            for l4, j4, e4, u4, note4 in n4_rows:
+                rows.append("He I,%s,%s,%.2g,%s,%s" % (l4, e4, u4, j4, note4))
     predicted_rows, predicted = predict(energy, out)
     uncertainty = {label: half_unit(e) for label, _, e, _, _ in LEVELS}
+    for label, _, _, u, _ in n4_rows:
+        uncertainty[label] = u
     for label, (e, u) in predicted.items():
         energy[label] = e
         uncertainty[label] = u
@@ -373,7 +398,7 @@ def main():
         "# provenance: from-memory",
         "# version: NIST ASD (version not re-checked)",
         "# energy-unit: cm-1",
-        "# note: n <= 4: energies as the ASD prints them; uncertainty is half a unit in the last digit; the 4d 3D2, 4d 3D1 and the 4f levels are left out (not recalled); each row's note names its independent check. n = 5-%d (rows whose note begins 'computed'): predicted by this project's Rydberg-Ritz fit of each series' recalled n = 2-4 levels (n = 3-4 for the d series) and the ionization energy of Morton, Wu and Drake (2006); standard uncertainty from the fit's covariance and the truncation of the quantum-defect expansion; 3P1 3P0 3D2 3D1 from the n^-3-scaled splittings of n = 4 (3P) and n = 3 (3D); no nf levels. Checks in helium-checks.txt (make_helium_levels.py)" % N_MAX,
+        "# note: n <= 4: energies as the ASD prints them; uncertainty is half a unit in the last digit; the 4d 3D2 and 3D1 levels (not recalled) are computed: 4d 3D3 plus the n = 3 splittings scaled as (3/4)^3 with 15 %% of the splitting added to the uncertainty; the 4f levels are left out (not recalled); each row's note names its independent check. n = 5-%d (rows whose note begins 'computed'): predicted by this project's Rydberg-Ritz fit of each series' recalled n = 2-4 levels (n = 3-4 for the d series) and the ionization energy of Morton, Wu and Drake (2006); standard uncertainty from the fit's covariance and the truncation of the quantum-defect expansion; 3P1 3P0 3D2 3D1 from the n^-3-scaled splittings of n = 4 (3P) and n = 3 (3D); no nf levels. Checks in helium-checks.txt (make_helium_levels.py)" % N_MAX,
         "species,label,energy,uncertainty,j,note",
     ]
     with open("levels-he-i.csv", "w") as f:

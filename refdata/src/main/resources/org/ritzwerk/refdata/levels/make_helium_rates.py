@@ -46,6 +46,9 @@ import math
 import mpmath
 import numpy as np
 import scipy
+
+# numpy 2 renamed trapz to trapezoid (the same trapezoidal rule)
+TRAPEZOID = getattr(np, "trapezoid", None) or np.trapz
 from scipy.special import hyperu
 import sympy
 from sympy import Rational, Symbol, integrate, oo
@@ -151,7 +154,7 @@ def grid(n_star_max):
 def radial(n_star, l, r_min, r_all=GRID):
     r = r_all[r_all >= r_min]
     p = whittaker(n_star, l, r)
-    norm = np.trapz(p * p, r)
+    norm = TRAPEZOID(p * p, r)
     return r, p / math.sqrt(norm)
 
 
@@ -159,7 +162,7 @@ def radial_integral(a, b, r_min):
     r_all = grid(max(a[0], b[0]))
     ra, pa = radial(a[0], a[1], r_min, r_all)
     rb, pb = radial(b[0], b[1], r_min, r_all)
-    return abs(np.trapz(pa * ra * pb, ra))
+    return abs(TRAPEZOID(pa * ra * pb, ra))
 
 
 def einstein_a(sigma_per_cm, s_au, g_upper):
@@ -299,7 +302,7 @@ def main():
         "# title: He I transition probabilities between the levels of levels-he-i (n <= 10)",
         "# source: computed by the Coulomb approximation of D. R. Bates and A. Damgaard, Phil. Trans. R. Soc. Lond. A 242, 101 (1949), from the level energies of levels-he-i; the three lines to the ground level from memory, values of W. L. Wiese and J. R. Fuhr, J. Phys. Chem. Ref. Data 38, 565 (2009); the intercombination line 1s2 1S0 - 1s2p 3P1 from memory, value of G. Lach and K. Pachucki, Phys. Rev. A 64, 042510 (2001)",
         "# provenance: computed",
-        "# version: make_helium_rates.py with Debian python3-scipy %s and python3-mpmath %s" % (scipy.__version__, mpmath.__version__),
+        "# version: make_helium_rates.py with scipy %s and mpmath %s" % (scipy.__version__, mpmath.__version__),
         "# position-unit: cm-1",
         "# note: position is the Ritz wavenumber of the two levels (vacuum); einstein_a in s^-1 for the upper level named; lines between a singlet and a triplet level get no A (the method leaves out singlet-triplet mixing) except 1s2 1S0 - 1s2p 3P1 (a published value); the computed values agree with %d strong-line A values of Wiese and Fuhr (2009), recalled from memory, within %.0f %% (helium-rates-checks.txt); lines to the ground level from n >= 5 get no A (none recalled); each row's note names its source" % (len(RECALLED), 100 * worst + 0.5),
         "species,position,einstein_a,lower,upper,note",
