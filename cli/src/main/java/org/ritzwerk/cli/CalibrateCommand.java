@@ -153,7 +153,7 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (the report), csv (the fitted lines: pixel, pixel_sigma, line, wavelength_nm, "
-                    + "solution_nm, residual_nm, residual_pixels, used) or json (the calibration document, as "
+                    + "solution_nm, residual_nm, residual_pixels, used, flag: blend or saturated) or json (the calibration document, as "
                     + "--out writes it). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
@@ -286,8 +286,15 @@ final class CalibrateCommand implements Callable<Integer> {
                 throw new OptionException("give both --from and --to, or neither");
             }
             Medium m = AxisMedium.of(medium);
-            double a = AxisMedium.nanometres(from, m);
-            double b = AxisMedium.nanometres(to, m);
+            double a;
+            double b;
+            try {
+                a = AxisMedium.nanometres(from, m);
+                b = AxisMedium.nanometres(to, m);
+            } catch (IllegalArgumentException | org.ritzwerk.RitzwerkException e) {
+                throw new OptionException("--from/--to (" + from + " to " + to + "): " + e.getMessage()
+                        + "; give the wavelength range the detector may see", e);
+            }
             lo = Math.min(a, b);
             hi = Math.max(a, b);
         }

@@ -127,8 +127,11 @@ final class LevelsCommand implements Callable<Integer> {
                 + " effective lifetimes are computed for alkali atoms)");
         rules.refuseUnless("--l-max", alkali, "for one-electron ions (--species names no alkali atom; every l of a"
                 + " one-electron ion up to n - 1 is listed)");
-        rules.refuseUnless("--hyperfine", alkali, "for one-electron ions (--species names no alkali atom; give"
-                + " --model hyperfine for their F levels)");
+        String listed = levelSets.levels().stream().map(l -> l.species().notation()).toList().toString();
+        rules.refuseUnless("--hyperfine", alkali, atoms.ions().isEmpty()
+                ? "for species with a level list " + listed + " (a level list carries no hyperfine constants;"
+                        + " --hyperfine splits the levels of alkali atoms)"
+                : "for one-electron ions (--species names no alkali atom; give --model hyperfine for their F levels)");
         if (hyperfine) {
             for (AlkaliAtom atom : atoms.alkalis()) {
                 if (data.context().alkaliHyperfine().constants(atom.species()).isEmpty()) {
@@ -145,8 +148,11 @@ final class LevelsCommand implements Callable<Integer> {
             RydbergHyperfineLevels.print(data.context(), atoms.alkalis(), state, spec.commandLine().getOut(), format);
             return 0;
         }
-        rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion;"
-                + " the model column says where each alkali energy comes from)");
+        rules.refuseUnless("--model", !atoms.ions().isEmpty(), alkali
+                ? "for alkali atoms (--species names no one-electron ion; the model column says where each alkali"
+                        + " energy comes from)"
+                : "for species with a level list " + listed + " (--species names no one-electron ion; their"
+                        + " energies are the list's)");
         if (lifetimes) {
             WorkEstimate.hydrogenLifetimes(nMax, atoms.ions().size()).ifPresent(note -> {
                 spec.commandLine().getErr().println(note);

@@ -237,6 +237,17 @@ final class SynthCommand implements Callable<Integer> {
             throw new OptionException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
                     + " or both");
         }
+        List<String> models = new ArrayList<>();
+        if (!resolved.isEmpty()) {
+            models.add(ions.model + " levels of the one-electron ions, n <= " + nMax);
+        }
+        if (!atoms.alkalis().isEmpty()) {
+            models.add("quantum-defect levels of the alkali atoms, n <= " + nMax);
+        }
+        for (var levels : levelSets.levels()) {
+            models.add("the level list of " + levels.species().notation());
+        }
+        modelDescription = models.isEmpty() ? "none (line lists only)" : String.join("; ", models);
         for (Ions.Ion ion : resolved) {
             builder.hydrogenLike(ion.species(), ion.model(), abundance.getOrDefault(ion.species().z(), 1.0));
         }
@@ -561,6 +572,9 @@ final class SynthCommand implements Callable<Integer> {
                 new OutputFiles.Named("--plot", plot)), inputs);
     }
 
+    /** Where the scene's levels come from, per kind of species, for the files' headers; set by the run. */
+    private String modelDescription = "none";
+
     /** The scene as written in the files' headers (CSV comments, the JSON "scene" object), one line per value. */
     private Map<String, Object> description() {
         Map<String, Object> d = scene();
@@ -572,7 +586,7 @@ final class SynthCommand implements Callable<Integer> {
         Map<String, Object> d = new LinkedHashMap<>();
         d.put("species", ions.species.isEmpty() ? "none" : String.join(",", ions.species));
         d.put("lines", lineSets.isEmpty() ? "none" : String.join(",", lineSets));
-        d.put("model", ions.model + " levels, n <= " + nMax);
+        d.put("model", modelDescription);
         d.put("temperature-k", temperature);
         d.put("electron-density-m3", electronDensity == null ? "none" : electronDensity);
         d.put("abundance", abundances.isEmpty() ? "1 each" : String.join(",", abundances));

@@ -303,6 +303,27 @@ class CalibrateCommandTest {
                 strength.err());
         assertTrue(CliTest.run("calibrate", spectrum.toString(), "--lamp", "Xe II").err()
                 .contains("no built-in lamp set or level list for Xe II"));
+        // A fixed degree too low for a curved dispersion (the README's lamp: the slope falls by 9 %
+        // across 4096 pixels) is named as the likely cause.
+        Path curved = dir.resolve("curved.csv");
+        assertEquals(0, CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "350,0.14,-1.5e-6", "--pixels",
+                "4096", "--medium", "air", "--temperature", "300", "--resolving-power", "2000", "--read-noise", "5",
+                "--seed", "21", "--out", curved.toString()).code());
+        CliTest.Run straight = CliTest.run("calibrate", curved.toString(), "--lamp", "Ne I", "--degree", "1");
+        assertEquals(2, straight.code(), straight.err());
+        assertTrue(straight.err().contains("fixed degree-1 polynomial") && straight.err().contains("fix a higher one"),
+                straight.err());
+        // A prior without a wavelength range says so instead of printing infinity.
+        CliTest.Run falling = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--dispersion-range",
+                "-0.2,-0.1");
+        assertEquals(2, falling.code());
+        assertTrue(falling.err().contains("(any wavelength, -0.200000 to -0.100000 nm/pixel)"), falling.err());
+        assertTrue(!falling.err().contains("Infinity"), falling.err());
+        // A range in a unit that is no wavelength the air model takes names the options.
+        CliTest.Run hertz = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--from", "5 GHz", "--to",
+                "10 GHz");
+        assertEquals(2, hertz.code());
+        assertTrue(hertz.err().contains("--from/--to (5 GHz to 10 GHz): "), hertz.err());
     }
 
     @Test

@@ -114,6 +114,9 @@ class HeliumCommandsTest {
                 "--temperature", "30000", "--no-noise", "--truth", truth.toString(), "--out",
                 dir.resolve("spectrum.csv").toString());
         assertEquals(0, synth.code(), synth.err());
+        // The header names where each kind of species' levels come from.
+        assertTrue(Files.readAllLines(dir.resolve("spectrum.csv")).contains(
+                "# model: qed levels of the one-electron ions, n <= 30; the level list of He I"));
         double strongestHe = 0;
         String strongestLabel = null;
         List<String[]> rows = new ArrayList<>();

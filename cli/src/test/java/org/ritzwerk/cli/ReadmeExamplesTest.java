@@ -148,10 +148,50 @@ class ReadmeExamplesTest {
 
     private static final Set<String> FIXTURES = Set.of(
             "./ritzwerk identify peaks.csv --species \"H I,He II\" --search-velocity 100",
-            "./ritzwerk identify peaks.csv --species \"H I\" --n-max 9 --plasma --resolving-power 5000",
+            "./ritzwerk identify plasma-peaks.csv --species \"H I\" --n-max 9 --plasma --resolving-power 5000",
             "./ritzwerk calibrate sample.csv --apply calibration.json --out sample-nm.csv",
             "./ritzwerk lines --species \"H I\" --from \"121 nm\" --to \"122 nm\" --data my-isotopes.csv",
             "./ritzwerk series rb87-series.csv --predict 60");
+
+    /** The README's example inputs, shipped in the repository for users to run the examples on. */
+    static final Path EXAMPLE_DATA = Path.of("..", "examples", "data");
+
+    /**
+     * The shipped example inputs are what their generators give, so they cannot drift from the
+     * tool: the velocity example's peaks are read off the README's own transcript (positions from
+     * its column 3; uncertainties residual / (res/sigma): 4 pm, and 5 pm for Balmer alpha); the
+     * plasma example's peaks are synth's truth at 12,000 K and 2e22 m^-3 (counts to six
+     * significant digits as intensity, as a measurement would give them, and the Voigt width with
+     * the instrument's lambda / R); the series file is the one the cli tests use (members computed
+     * from the built-in Rb-87 defects).
+     */
+    @Test
+    void theShippedExampleInputsAreWhatTheirGeneratorsGive(@TempDir Path dir) throws IOException {
+        String peaks = String.join("\n",
+                "# ritzwerk-peaks 1",
+                "# id: readme-peaks",
+                "# title: the README's identification example",
+                "# source: invented for the README",
+                "# provenance: measured",
+                "# version: 1",
+                "# position-unit: nm",
+                "# medium: air",
+                "position,uncertainty",
+                "410.2405,0.004",
+                "434.1155,0.004",
+                "486.2065,0.004",
+                "540.157,0.004",
+                "656.3745,0.005",
+                "700.0,0.004",
+                "");
+        assertEquals(peaks, Files.readString(EXAMPLE_DATA.resolve("peaks.csv")));
+        String plasma = IdentifyCommandTest.plasmaPeaks(dir, "plasma-example", "%.6g");
+        Files.writeString(Path.of("target", "plasma-peaks.generated.csv"), plasma, StandardCharsets.UTF_8);
+        assertEquals(plasma, Files.readString(EXAMPLE_DATA.resolve("plasma-peaks.csv")),
+                "examples/data/plasma-peaks.csv (the generated one is in cli/target/plasma-peaks.generated.csv)");
+        assertEquals(Files.readString(Path.of("src", "test", "resources", "org", "ritzwerk", "cli", "series-rb-87.csv")),
+                Files.readString(EXAMPLE_DATA.resolve("rb87-series.csv")));
+    }
 
     /**
      * Writes the input files a README command reads but no earlier README command writes.
@@ -163,34 +203,9 @@ class ReadmeExamplesTest {
             return false;
         }
         if (command.contains("--search-velocity 100")) {
-            // Six peaks in standard air, read off the README's own transcript: positions from its
-            // column 3, file lines 10-15 (eight header lines and the column row before them), and
-            // uncertainties residual / (res/sigma): 4 pm, and 5 pm for Balmer alpha.
-            Files.writeString(dir.resolve("peaks.csv"), String.join("\n",
-                    "# ritzwerk-peaks 1",
-                    "# id: readme-peaks",
-                    "# title: the README's identification example",
-                    "# source: invented for the README",
-                    "# provenance: measured",
-                    "# version: 1",
-                    "# position-unit: nm",
-                    "# medium: air",
-                    "position,uncertainty",
-                    "410.2405,0.004",
-                    "434.1155,0.004",
-                    "486.2065,0.004",
-                    "540.157,0.004",
-                    "656.3745,0.005",
-                    "700.0,0.004",
-                    ""), StandardCharsets.UTF_8);
+            Files.copy(EXAMPLE_DATA.resolve("peaks.csv"), dir.resolve("peaks.csv"));
         } else if (command.contains("--plasma")) {
-            // synth's truth at 12,000 K and 2e22 m^-3 turned into peaks: the line's counts to six
-            // significant digits as intensity (as a measurement would give them; exact counts
-            // leave only rounding noise as the scatter, so the printed uncertainty would hang on
-            // the last bit of the logarithms), its Voigt width (Olivero-Longbothum) with the
-            // instrument's lambda / R.
-            Files.writeString(dir.resolve("peaks.csv"), IdentifyCommandTest.plasmaPeaks(dir, "plasma-example", "%.6g"),
-                    StandardCharsets.UTF_8);
+            Files.copy(EXAMPLE_DATA.resolve("plasma-peaks.csv"), dir.resolve("plasma-peaks.csv"));
         } else if (command.contains("sample.csv")) {
             // Another spectrum from the same invented spectrometer as the README's neon lamp.
             CliTest.Run synth = CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "350,0.14,-1.5e-6",
@@ -198,9 +213,7 @@ class ReadmeExamplesTest {
                     "--read-noise", "5", "--seed", "22", "--out", dir.resolve("sample.csv").toString());
             assertEquals(0, synth.code(), synth.err());
         } else if (command.contains("rb87-series.csv")) {
-            // The series file the cli tests ship (members computed from the built-in Rb-87 defects).
-            Files.copy(Path.of("src", "test", "resources", "org", "ritzwerk", "cli", "series-rb-87.csv"),
-                    dir.resolve("rb87-series.csv"));
+            Files.copy(EXAMPLE_DATA.resolve("rb87-series.csv"), dir.resolve("rb87-series.csv"));
         } else {
             // The isotope table the repository ships, in the format --data reads. (`data show
             // nuclear-isotopes --format csv` writes only the columns, no header keys, which

@@ -73,4 +73,43 @@ class StrontiumCommandsTest {
         assertTrue(lines.out().contains("\"5s5p 3P1 - 5s.40s 3S1\""), lines.out());
         assertTrue(!lines.out().contains("1S0\""), "no intercombination line from 5s5p 3P1 under the LS rules");
     }
+
+    /**
+     * Species whose data lack a quantity a command needs are bad input (exit 2, named), not an
+     * internal error: Sr I's level list has no A values, so it gives no light to render and no lamp
+     * to rank (nor do the alkali atoms' level lists); a level list carries no hyperfine constants
+     * and takes no level model.
+     */
+    @Test
+    void whatALevelListLacksIsRefusedAsInput(@TempDir Path dir) throws IOException {
+        CliTest.Run synth = CliTest.run("synth", "--species", "Sr I", "--from", "400 nm", "--to", "500 nm",
+                "--temperature", "3000", "--out", dir.resolve("sr.csv").toString());
+        assertEquals(2, synth.code(), synth.err());
+        assertTrue(synth.err().contains("Sr I: no line between its levels has a transition probability"), synth.err());
+        assertTrue(!Files.exists(dir.resolve("sr.csv")));
+
+        Path spectrum = dir.resolve("flat.csv");
+        StringBuilder counts = new StringBuilder("counts\n");
+        for (int p = 0; p < 64; p++) {
+            counts.append(100 + (p % 7)).append('\n');
+        }
+        Files.writeString(spectrum, counts);
+        for (String gas : new String[] {"Sr I", "Na I"}) {
+            CliTest.Run lamp = CliTest.run("calibrate", spectrum.toString(), "--lamp", gas);
+            assertEquals(2, lamp.code(), lamp.err());
+            assertTrue(lamp.err().contains(gas + ": no lamp set, and none of the") && lamp.err().contains(
+                    "has an Einstein A"), lamp.err());
+        }
+
+        for (String species : new String[] {"He I", "Sr I"}) {
+            CliTest.Run hyperfine = CliTest.run("levels", "--species", species, "--hyperfine");
+            assertEquals(2, hyperfine.code());
+            assertTrue(hyperfine.err().contains("--hyperfine has no effect for species with a level list [" + species
+                    + "] (a level list carries no hyperfine constants"), hyperfine.err());
+            CliTest.Run model = CliTest.run("levels", "--species", species, "--model", "hyperfine");
+            assertEquals(2, model.code());
+            assertTrue(model.err().contains("--model has no effect for species with a level list [" + species + "]"),
+                    model.err());
+        }
+    }
 }

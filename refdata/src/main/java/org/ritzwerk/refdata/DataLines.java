@@ -104,7 +104,8 @@ public final class DataLines {
      * @param medium  the medium of the calibration's wavelengths
      * @return the lamp
      * @throws ReferenceDataException ({@code unknown-data-set}) when the context has neither a lamp
-     *         set nor a level list for the species
+     *         set nor a level list for the species; ({@code missing-quantity}) when its level list's
+     *         lines have no transition probabilities to rank them by
      */
     public static LampSet lamp(DataContext context, Species species, Medium medium) {
         Objects.requireNonNull(context, "context");
@@ -114,7 +115,18 @@ public final class DataLines {
             return LampSet.of(List.of(context.lampLines(species)), medium);
         }
         RitzLevels levels = levels(context, species);
-        return LampSet.ofRates(LineSet.ofRitz(ritzLines(context, species).compute(levels)), medium);
+        LineSet lines = LineSet.ofRitz(ritzLines(context, species).compute(levels));
+        boolean rated = false;
+        for (int i = 0; i < lines.size() && !rated; i++) {
+            rated = lines.einsteinA(i).isPresent() && lines.upperWeight(i).isPresent();
+        }
+        if (!rated) {
+            throw new ReferenceDataException(ReferenceDataException.MISSING_QUANTITY, species.notation()
+                    + ": no lamp set, and none of the " + lines.size() + " Ritz lines of its level list has an Einstein"
+                    + " A (the data have no companion line list with rates), so its lines cannot be ranked as a"
+                    + " lamp; give a lamp line list with relative intensities instead");
+        }
+        return LampSet.ofRates(lines, medium);
     }
 
     /**

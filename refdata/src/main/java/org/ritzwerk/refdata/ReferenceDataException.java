@@ -16,6 +16,11 @@ public final class ReferenceDataException extends RitzwerkException {
     public static final String WRONG_KIND = "refdata.wrong-kind";
     /** Code: a built-in data file does not read (a packaging bug). */
     public static final String BAD_BUILT_IN = "refdata.bad-built-in";
+    /**
+     * Code: a species' data cannot give what was asked because a quantity is missing, such as a
+     * level list without transition probabilities where lines must be ranked or rendered.
+     */
+    public static final String MISSING_QUANTITY = "refdata.missing-quantity";
     /** Code: a data set holds something its file format cannot hold, so it is not written. */
     public static final String NOT_WRITABLE = "refdata.not-writable";
 

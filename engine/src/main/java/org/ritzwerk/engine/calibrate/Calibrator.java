@@ -331,7 +331,7 @@ public final class Calibrator {
             DispersionSolution solution = calibration.solution();
             throw new CalibrationException(CalibrationException.IMPRECISE, String.format(Locale.ROOT,
                     "%s: the solution (degree %d, %d lines from pixel %.1f to %.1f) has a stated standard uncertainty "
-                            + "of %.3g pixels (%.3g nm) near pixel %.0f, above the required %.3g pixels; lamp lines "
+                            + "of %.4g pixels (%.3g nm) near pixel %.1f, above the required %.4g pixels; lamp lines "
                             + "near that end, a longer exposure (more counts in the weak lines) or a lower degree "
                             + "would tighten it", calibration.problem().source(), solution.degree(),
                     solution.usedCount(), calibration.lowestUsedPixel(), calibration.highestUsedPixel(), sigma,
@@ -358,12 +358,18 @@ public final class Calibrator {
         }
         double chi2 = solution.reducedChiSquare();
         if (chi2 > maxChi2) {
+            String cause = degree > 0
+                    ? String.format(Locale.ROOT, "the pairs disagree with the fixed degree-%d polynomial by far more "
+                            + "than their uncertainties: a dispersion more curved than that degree can follow (let the "
+                            + "degree be chosen, or fix a higher one), or a wrong pairing or lamp list (give a prior)",
+                            degree)
+                    : "the pairs disagree with any smooth dispersion by far more than their uncertainties, which means "
+                            + "a wrong pairing or a wrong lamp list. Give a prior";
             throw new CalibrationException(CalibrationException.IMPLAUSIBLE_FIT, String.format(Locale.ROOT,
                     "%s: the fitted solution's reduced chi-square is %.3g (%d pairs, RMS %.3g pixels), above the "
-                            + "accepted %.3g: the pairs disagree with any smooth dispersion by far more than their "
-                            + "uncertainties, which means a wrong pairing or a wrong lamp list. Give a prior, or raise "
-                            + "the limit only if the centroid uncertainties are known to be too small",
-                    problem.source(), chi2, solution.usedCount(), solution.rmsPixels(), maxChi2));
+                            + "accepted %.3g: %s; raise the accepted limit (a library setting) only if the centroid "
+                            + "uncertainties are known to be too small",
+                    problem.source(), chi2, solution.usedCount(), solution.rmsPixels(), maxChi2, cause));
         }
     }
 

@@ -216,8 +216,11 @@ public final class LampMatcher {
 
         @Override
         public String toString() {
-            return String.format(Locale.ROOT, "%.6g to %.6g nm, %.6g to %.6g nm/pixel", minWavelengthNm,
-                    maxWavelengthNm, minDispersion, maxDispersion);
+            String range = minWavelengthNm <= 0 && Double.isInfinite(maxWavelengthNm) ? "any wavelength"
+                    : Double.isInfinite(maxWavelengthNm)
+                            ? String.format(Locale.ROOT, "from %.6g nm up", minWavelengthNm)
+                            : String.format(Locale.ROOT, "%.6g to %.6g nm", minWavelengthNm, maxWavelengthNm);
+            return String.format(Locale.ROOT, "%s, %.6g to %.6g nm/pixel", range, minDispersion, maxDispersion);
         }
     }
 

@@ -441,7 +441,7 @@ public final class Scene {
          * @param nucleus   its nucleus, for the atom's mass (nucleus plus bound electrons) in the
          *                  Doppler width
          * @return this builder
-         * @throws IllegalArgumentException when no line of the levels has an A
+         * @throws SceneException ({@link SceneException#NO_RATES}) when no line of the levels has an A
          */
         public Builder levels(RitzLevels levels, RitzLines job, double abundance, Nucleus nucleus) {
             Objects.requireNonNull(levels, "levels");
@@ -454,8 +454,9 @@ public final class Scene {
                 any = lines.einsteinA(i).isPresent();
             }
             if (!any) {
-                throw new IllegalArgumentException(levels.species().notation() + ": no line between its levels has"
-                        + " a transition probability (give a companion line list with A and level labels)");
+                throw new SceneException(SceneException.NO_RATES, levels.species().notation() + ": no line between"
+                        + " its levels has a transition probability, so it gives no light to render (give a"
+                        + " companion line list with A and level labels)");
             }
             Species species = levels.species();
             lists.add(new LevelEmitter(lines, abundance,

@@ -307,7 +307,7 @@ class CalibrationSweepTest {
         CalibrationException refused = assertThrows(CalibrationException.class,
                 () -> settings.withRequiredPrecision(0.05).calibrate(problem));
         assertEquals(CalibrationException.IMPRECISE, refused.code());
-        assertTrue(refused.getMessage().contains("above the required 0.0500 pixels"), refused.getMessage());
+        assertTrue(refused.getMessage().contains("above the required 0.05000 pixels"), refused.getMessage());
         // A requirement the solution meets changes nothing.
         Calibration loose = settings.withRequiredPrecision(1).calibrate(problem);
         assertEquals(accepted.solution().wavelengthAt(100), loose.solution().wavelengthAt(100));
