@@ -162,9 +162,10 @@ class HeliumRatesTest {
         // lines without A (intercombination lines) are not drawn
         assertTrue(byLabel.keySet().stream().noneMatch(l -> l.contains("1D2 - 1s2p 3P")), byLabel.keySet().toString());
         // a level list without any A is refused with its species named
-        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+        org.ritzwerk.engine.synth.SceneException e = assertThrows(org.ritzwerk.engine.synth.SceneException.class,
                 () -> Scene.builder(PixelGrid.linear(580, 680, 100)).levels(levels, RitzLines.defaults(), 1,
                         context.nucleus(HE)));
+        assertEquals(org.ritzwerk.engine.synth.SceneException.NO_RATES, e.code());
         assertTrue(e.getMessage().startsWith("He I: no line"), e.getMessage());
     }
 }
