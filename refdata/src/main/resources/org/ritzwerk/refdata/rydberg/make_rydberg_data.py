@@ -621,6 +621,42 @@ def parse_levels(text):
     return rows
 
 
+# Levels the source prints with one energy for both J of a fine-structure doublet (Li np, n >= 3:
+# the ASD gives the unresolved value): split here as that value plus the resonance doublet's
+# splitting scaled as n*^-3 (common practice; the published p1/2 and p3/2 Rydberg-Ritz formulas give
+# the same splittings at n = 3-10 within 1.5 %, see "# split" in fit-residuals.txt), the J levels at the (2J + 1)-weighted
+# centroid minus 2/3 and plus 1/3 of the splitting; uncertainty: the printed half unit and 15 % of
+# the splitting in quadrature.  Key (symbol, n, l, 2J) -> (splitting, uncertainty).
+SPLIT_FINE_STRUCTURE = ("Li",)
+FINE_SPLIT_U_FRACTION = 0.15
+split_levels = {}
+
+
+def split_unresolved_p(symbol, levels, limit, r_m, report=None):
+    """The levels with each unresolved p doublet (n >= 3, both J at one printed energy) split as above."""
+    if symbol not in SPLIT_FINE_STRUCTURE:
+        return levels
+    by_key = {(n, l, tj): e for n, l, tj, e in levels}
+    low = min(n for n, l, tj, e in levels if l == 1)
+    e1, e3 = float(by_key[(low, 1, 1)]), float(by_key[(low, 1, 3)])
+    split_low = e3 - e1
+    n_low = math.sqrt(r_m / (limit - (2 * e1 + 4 * e3) / 6))
+    out = []
+    for n, l, tj, e in levels:
+        if l == 1 and n > low and by_key.get((n, 1, 1)) == by_key.get((n, 1, 3)):
+            value = float(e)
+            n_star = math.sqrt(r_m / (limit - value))
+            split = split_low * (n_low / n_star) ** 3
+            shifted = value - 2 * split / 3 if tj == 1 else value + split / 3
+            decimals = len(e.split(".")[1]) if "." in e else 0
+            u = math.hypot(0.5 * last_digit_unit(e), FINE_SPLIT_U_FRACTION * split)
+            split_levels[(symbol, n, l, tj)] = (split, u)
+            out.append((n, l, tj, "%.*f" % (decimals + 3, shifted)))
+        else:
+            out.append((n, l, tj, e))
+    return out
+
+
 def j_text(two_j):
     return "%d/2" % two_j
 
@@ -812,11 +848,29 @@ def main():
     for atom_id, symbol, z, a, series, levels_text, d_line_source, version in ATOMS:
         r_m = rydberg_per_cm(MASS_U[atom_id])
         limit, limit_provenance, limit_source, limit_second = LIMITS[atom_id]
-        levels = parse_levels(levels_text)
+        printed = parse_levels(levels_text)
+        levels = split_unresolved_p(symbol, printed, LIMITS[SHARED.get(atom_id, atom_id)][0],
+                                    rydberg_per_cm(MASS_U[SHARED.get(atom_id, atom_id)]))
+        # check 1's allowance: half a unit of the digits as the ASD prints them
+        half_unit = {(n, l, tj): 0.5 * last_digit_unit(e) for n, l, tj, e in printed}
         uncertainty = {(n, l, tj): 0.5 * last_digit_unit(e) for n, l, tj, e in levels}
-        half_unit = dict(uncertainty)  # of the digits as the ASD prints them (check 1's allowance)
         if atom_id in SHARED:
             levels, uncertainty = shifted_levels(atom_id, levels)
+        if atom_id not in SHARED:
+            coefficients_of = {(l, tj): c for l, tj, c, paper in series}
+            for (sym, n, l, tj), (split, u) in sorted(split_levels.items()):
+                if sym == symbol and tj == 1:
+                    published = ritz(limit, r_m, coefficients_of[(l, 3)], n) - ritz(limit, r_m, coefficients_of[(l, 1)], n)
+                    report.append("# split %s %d%s: the resonance doublet's splitting scaled as n*^-3 gives %.5f cm-1; "
+                                  "the published %s1/2 and %s3/2 Rydberg-Ritz formulas %.5f (ratio %.3f)"
+                                  % (atom_id, n, L_LETTERS[l], split, L_LETTERS[l], L_LETTERS[l], published,
+                                     split / published))
+        texts = {(n, l, tj): e for n, l, tj, e in levels}
+        for (sym, n, l, tj), (split, u) in split_levels.items():
+            if sym == symbol:
+                # the split's uncertainty in place of the half unit of the digits written (a shared
+                # isotope keeps its addition for the neglected isotope shifts)
+                uncertainty[(n, l, tj)] += u - 0.5 * last_digit_unit(texts[(n, l, tj)])
         valid_from = {}
         row_check = {}
         level_check = {}
@@ -972,6 +1026,10 @@ def main():
                 else:
                     check = "check 1 %+.4f cm-1" % formula
                     check += "; check 2 %+.4f cm-1" % reg if reg is not None else "; check 2 not possible (too few members)"
+            if (symbol, n, l, two_j) in split_levels:
+                split, u_split = split_levels[(symbol, n, l, two_j)]
+                check += ("; the ASD's unresolved %d%s doublet split by the resonance doublet's splitting scaled "
+                          "as n*^-3 (%.4f cm-1; u adds 15 %% of it)" % (n, L_LETTERS[l], split))
             lv.append("%s,%s,%s,%s,%s,from memory; %s" % (species, label(n, l, two_j), text, "%.2g" % u,
                                                            j_text(two_j), check))
         with open("levels-%s.csv" % atom_id, "w") as f:
