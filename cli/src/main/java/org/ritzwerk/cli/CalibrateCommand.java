@@ -398,8 +398,12 @@ final class CalibrateCommand implements Callable<Integer> {
         w.printf(Locale.ROOT, "Coverage: lines from pixel %.1f to %.1f, %.0f %% of the detector%n",
                 calibration.lowestUsedPixel(), calibration.highestUsedPixel(), 100 * calibration.coverage());
         double at = calibration.largestSigmaAtPixel();
-        w.printf(Locale.ROOT, "Largest stated uncertainty between those lines: %.3g pixel (%.2g nm) near pixel %.1f%n",
-                calibration.largestSigmaPixels(), solution.wavelengthSigmaAt(at), at);
+        if (Double.isNaN(calibration.largestSigmaPixels())) {
+            w.println("Largest stated uncertainty between those lines: none stated (the solution has no covariance)");
+        } else {
+            w.printf(Locale.ROOT, "Largest stated uncertainty between those lines: %.3g pixel (%.2g nm) near pixel"
+                    + " %.1f%n", calibration.largestSigmaPixels(), solution.wavelengthSigmaAt(at), at);
+        }
         w.println();
         LampMatch match = calibration.match();
         LampMatch saturatedPairs = calibration.saturatedPairs();

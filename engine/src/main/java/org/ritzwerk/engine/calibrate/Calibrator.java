@@ -326,6 +326,11 @@ public final class Calibrator {
             return;
         }
         double sigma = calibration.largestSigmaPixels();
+        if (Double.isNaN(sigma)) {
+            throw new CalibrationException(CalibrationException.IMPRECISE, calibration.problem().source()
+                    + ": the solution states no uncertainty (no covariance), so it cannot meet the required "
+                    + String.format(Locale.ROOT, "%.4g", requiredPrecision) + " pixels");
+        }
         if (!(sigma <= requiredPrecision)) {
             double at = calibration.largestSigmaAtPixel();
             DispersionSolution solution = calibration.solution();
