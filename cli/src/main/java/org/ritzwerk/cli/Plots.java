@@ -127,7 +127,7 @@ final class Plots {
      * error bars: the fitted pairs as dots, pairs the fit rejected as crosses, saturated pairs
      * (paired but left out of the fit) as open squares, each class in the legend only when it has
      * members. The scale is set by the fitted pairs (1.3 times their largest residual plus
-     * uncertainty, at least 3 RMS); a point beyond it is drawn on the edge as a triangle pointing
+     * uncertainty, a blend's residual alone, at least 3 RMS); a point beyond it is drawn on the edge as a triangle pointing
      * out, with its error bar cut, so one wild pair cannot flatten the others.
      *
      * @param batch       the batch the PNG joins
@@ -154,7 +154,11 @@ final class Plots {
         double limit = 3 * solution.rmsNm() * 1e3;
         for (int i = 0; i < solution.size(); i++) {
             if (!solution.isRejected(i)) {
-                limit = Math.max(limit, 1.3 * (Math.abs(solution.residualNm(i)) + solution.sigmaNm(i)) * 1e3);
+                // a pair taken for an unresolved blend carries a wide error bar by design: its residual
+                // counts, its bar does not set the scale (it is cut at the edge instead)
+                boolean blend = org.ritzwerk.data.CalibrationRecord.FittedLine.BLEND.equals(solution.pairFlag(i));
+                limit = Math.max(limit, 1.3 * (Math.abs(solution.residualNm(i)) + (blend ? 0 : solution.sigmaNm(i)))
+                        * 1e3);
             }
         }
         limit = limit > 0 && Double.isFinite(limit) ? limit : 1;

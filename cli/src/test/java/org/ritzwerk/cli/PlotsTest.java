@@ -105,4 +105,37 @@ class PlotsTest {
             }
         }
     }
+
+    /**
+     * The README's neon lamp has one pair taken for a blend (877.17 nm, its centroid uncertainty
+     * widened to about 1.2 pixels by design): the residual chart's scale follows the other pairs
+     * and that pair's residual, not its wide bar.
+     */
+    @Test
+    void aBlendsWideErrorBarDoesNotSetTheScale(@TempDir Path dir) throws IOException {
+        Path spectrum = dir.resolve("neon-lamp.csv");
+        assertEquals(0, CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "350,0.14,-1.5e-6", "--pixels",
+                "4096", "--medium", "air", "--temperature", "300", "--resolving-power", "2000", "--read-noise", "5",
+                "--seed", "21", "--out", spectrum.toString()).code());
+        DataContext data = DataContext.builtIn();
+        LampSet neon = LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
+        Calibration c = Calibrator.defaults().calibrate(CalibrationProblem.builder(SpectrumFiles.read(spectrum)
+                .counts()).lamp(neon).build());
+        var s = c.solution();
+        double widestBlend = 0;
+        double scale = 3 * s.rmsNm() * 1e3;
+        for (int i = 0; i < s.size(); i++) {
+            boolean blend = "blend".equals(s.pairFlag(i));
+            if (blend) {
+                widestBlend = Math.max(widestBlend, s.sigmaNm(i) * 1e3);
+            }
+            if (!s.isRejected(i)) {
+                scale = Math.max(scale, 1.3 * (Math.abs(s.residualNm(i)) + (blend ? 0 : s.sigmaNm(i))) * 1e3);
+            }
+        }
+        assertTrue(widestBlend > 0, "the example has a blend");
+        XYPlot plot = (XYPlot) Plots.residualChart("t", c).getPlot();
+        assertEquals(scale, plot.getRangeAxis().getUpperBound(), 1e-9 * scale);
+        assertTrue(plot.getRangeAxis().getUpperBound() < widestBlend, "the blend's bar reaches beyond the scale");
+    }
 }
