@@ -163,6 +163,7 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
+        OptionRules.distinct("--lines", lineSets);
         checkOptions();
         checkOutputs();
         SpectrumFiles.Spectrum spectrum = SpectrumFiles.read(spectrumFile);

@@ -235,6 +235,7 @@ final class DataCommand implements Callable<Integer> {
                                 + list.unit().symbol() + (list.medium() == null ? "" : " " + list.medium().spec());
                     } else if (set instanceof LevelList) {
                         LevelList levels = (LevelList) set;
+                        org.ritzwerk.refdata.DataLines.checkLevels(levels);
                         what = levels.size() + " levels of " + levels.info().species().size() + " species in "
                                 + levels.unit().symbol();
                     } else if (set instanceof QuantumDefects) {

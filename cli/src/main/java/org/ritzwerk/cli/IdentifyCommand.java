@@ -84,7 +84,7 @@ final class IdentifyCommand implements Callable<Integer> {
 
     @Option(names = "--tolerance", paramLabel = "TOL",
             description = "How far a peak may lie from its line: \"5 sigma\" (combined uncertainties; the default "
-                    + "when every peak has one), a width such as \"0.02 nm\" or \"0.5 cm-1\", \"20 ppm\", or a "
+                    + "when every peak has one), a width such as \"0.02 nm\" or \"20 ppm\", or a "
                     + "resolving power \"R=20000\".")
     String tolerance;
 
@@ -124,6 +124,7 @@ final class IdentifyCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        OptionRules.distinct("--lines", lineSets);
         checkOptions();
         PeakFiles.Peaks read = PeakFiles.read(peaksFile);
         double[] sigmas = read.allUncertain() ? read.uncertainties() : null;
@@ -242,7 +243,7 @@ final class IdentifyCommand implements Callable<Integer> {
         double value = Double.parseDouble(m.group(1));
         if (!(value > 0) || Double.isInfinite(value)) {
             throw new OptionException("--tolerance must be a positive finite number with its unit: \"5 sigma\","
-                    + " a width such as \"0.02 nm\" or \"0.5 cm-1\", \"20 ppm\" or a resolving power \"R=20000\"; got "
+                    + " a width such as \"0.02 nm\" or \"20 ppm\", or a resolving power \"R=20000\"; got "
                     + (Double.isFinite(value) ? "'" + text.strip() + "'" : OptionRules.show(value)));
         }
     }
@@ -374,6 +375,9 @@ final class IdentifyCommand implements Callable<Integer> {
                 Table.Column.number("residual", "residual", "%+.6f"),
                 Table.Column.number("residual_sigma", "res/sigma", "%+.2f")), out, format);
         double[] linePositions = new double[1];
+        // the normalised residual is the wavelength's; in a unit that falls as wavelength rises (cm-1,
+        // Hz, eV) the position residual has the other sign, and res/sigma must share it
+        double residualSign = unit.kind() == org.ritzwerk.quantity.Kind.WAVELENGTH ? 1 : -1;
         for (int i = 0; i < read.size(); i++) {
             int j = result.line(i);
             String status = result.status(i) == Identification.MATCHED ? "matched"
@@ -387,7 +391,7 @@ final class IdentifyCommand implements Callable<Integer> {
             table.add(i + 1, read.lines()[i], read.positions()[i], status, j < 0 ? null : lines.species(j).notation(),
                     j < 0 ? null : lines.label(j), linePosition,
                     linePosition == null ? null : read.positions()[i] - linePosition,
-                    j < 0 ? null : result.normalizedResidual(i));
+                    j < 0 ? null : residualSign * result.normalizedResidual(i));
         }
         table.finish();
         PrintWriter summary = format == Table.Format.text ? out : spec.commandLine().getErr();

@@ -35,6 +35,7 @@ final class LevelSets {
     static Split split(DataContext data, List<String> speciesOptions) {
         List<String> others = new ArrayList<>();
         List<RitzLevels> levels = new ArrayList<>();
+        java.util.Set<Species> named = new java.util.HashSet<>();
         for (String option : speciesOptions) {
             for (String text : option.split(",")) {
                 if (text.isBlank()) {
@@ -42,6 +43,10 @@ final class LevelSets {
                     continue;
                 }
                 Species s = Species.parse(text);
+                if (!named.add(s)) {
+                    throw new OptionException("--species names " + s.notation() + " twice (as '" + text.strip()
+                            + "'); give each species once");
+                }
                 boolean modelled = s.isHydrogenLike()
                         || s.charge() == 0 && data.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z());
                 if (!modelled && data.levelList(s).isPresent()) {

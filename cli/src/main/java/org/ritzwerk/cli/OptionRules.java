@@ -1,6 +1,7 @@
 package org.ritzwerk.cli;
 
 import java.math.BigDecimal;
+import java.util.List;
 import java.util.Locale;
 import picocli.CommandLine;
 import picocli.CommandLine.Model.CommandSpec;
@@ -61,6 +62,23 @@ final class OptionRules {
      * @return the value
      * @throws OptionException naming the option and the allowed range
      */
+    /**
+     * Refuses a repeatable option that names one value twice (a line list given twice would be
+     * counted twice).
+     *
+     * @param option the option, for the message
+     * @param values its values
+     * @throws OptionException naming the value given twice
+     */
+    static void distinct(String option, List<String> values) {
+        java.util.Set<String> seen = new java.util.HashSet<>();
+        for (String v : values) {
+            if (!seen.add(v.strip())) {
+                throw new OptionException(option + " names '" + v.strip() + "' twice; give each once");
+            }
+        }
+    }
+
     static double range(String option, double value, double min, boolean minInclusive, double max, String allowed) {
         boolean ok = (minInclusive ? value >= min : value > min) && value <= max;
         if (!ok) {

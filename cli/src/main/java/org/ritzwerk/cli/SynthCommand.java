@@ -190,6 +190,7 @@ final class SynthCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
+        OptionRules.distinct("--lines", lineSets);
         checkOptions();
         checkOutputs();
         if (!format.equals("csv") && !format.equals("json")) {

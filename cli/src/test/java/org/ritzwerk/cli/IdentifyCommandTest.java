@@ -281,4 +281,14 @@ class IdentifyCommandTest {
         }
         return peaks.toString();
     }
+
+    /** Without --instrument-fwhm or --resolving-power the density note says only Doppler was taken out. */
+    @Test
+    void thePlasmaNoteSaysWhenNoInstrumentWidthWasGiven() {
+        CliTest.Run run = CliTest.run("identify", java.nio.file.Path.of("..", "examples", "data", "plasma-peaks.csv")
+                .toString(), "--species", "H I", "--n-max", "9", "--plasma");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("(no instrument width given, so only Doppler at 12000 K)"), run.out());
+        assertTrue(!run.out().contains("(instrument, Doppler"), run.out());
+    }
 }

@@ -77,4 +77,63 @@ class InputErrorsTest {
         // With a width tolerance the same file is fine.
         assertEquals(0, CliTest.run("identify", peaks.toString(), "--species", "H", "--tolerance", "0.02 nm").code());
     }
+
+    /**
+     * Found by a second review: input that reached an engine precondition (exit 1) or was taken
+     * twice. A continuum that is zero on the grid, a level list whose label and J column disagree
+     * (also caught by {@code data check}), and a species or line list named twice are exit-2
+     * refusals naming what is wrong.
+     */
+    @Test
+    void inputThatUsedToReachAnEnginePreconditionIsRefused(@TempDir Path dir) throws IOException {
+        CliTest.Run cold = CliTest.run("synth", "--species", "H I", "--from", "400 nm", "--to", "700 nm",
+                "--temperature", "10000", "--continuum", "blackbody", "--continuum-temperature", "1", "--out",
+                dir.resolve("s.csv").toString());
+        assertEquals(2, cold.code(), cold.err());
+        assertTrue(cold.err().contains("the continuum is zero over the whole grid"), cold.err());
+
+        Path levels = dir.resolve("levels.csv");
+        Files.writeString(levels, String.join("\n", "# ritzwerk-levels 1", "# id: levels-he-i", "# title: t",
+                "# source: invented for a test", "# provenance: computed", "# version: 1", "# energy-unit: cm-1",
+                "species,label,energy,uncertainty,j,note", "He I,1s2 1S0,0,,0,", "He I,1s2s 3S1,159855.97,,1,",
+                "He I,1s2p 3P2,169086.77,,0,", ""));
+        CliTest.Run check = CliTest.run("data", "check", levels.toString());
+        assertEquals(2, check.code(), check.out() + check.err());
+        assertTrue(check.err().contains("level '1s2p 3P2' has J = 2 in its label but J = 0 beside it"), check.err());
+        CliTest.Run lines = CliTest.run("lines", "--species", "He I", "--data", levels.toString(), "--from",
+                "300 nm", "--to", "2000 nm");
+        assertEquals(2, lines.code(), lines.err());
+        assertTrue(lines.err().contains("level list levels-he-i (He I): level '1s2p 3P2'"), lines.err());
+
+        Path peaks = Path.of("..", "examples", "data", "peaks.csv");
+        CliTest.Run twice = CliTest.run("identify", peaks.toString(), "--species", "H I,H");
+        assertEquals(2, twice.code());
+        assertTrue(twice.err().contains("--species names H I twice"), twice.err());
+        CliTest.Run lists = CliTest.run("identify", peaks.toString(), "--species", "H I", "--lines", "lamp-ne-i",
+                "--lines", "lamp-ne-i");
+        assertEquals(2, lists.code());
+        assertTrue(lists.err().contains("--lines names 'lamp-ne-i' twice"), lists.err());
+    }
+
+    /**
+     * In an energy-like unit the position residual and res/sigma have one sign (res/sigma was the
+     * wavelength's, of the other sign, for peaks in cm-1, Hz or eV).
+     */
+    @Test
+    void residualAndNormalisedResidualShareTheirSignInEveryUnit(@TempDir Path dir) throws IOException {
+        Path peaks = dir.resolve("peaks-cm.csv");
+        // H I Balmer alpha at 15233.07 cm-1 (vacuum), a peak 0.2 cm-1 below it
+        Files.writeString(peaks, String.join("\n", "# ritzwerk-peaks 1", "# id: t", "# title: t",
+                "# source: invented for a test", "# provenance: measured", "# version: 1", "# position-unit: cm-1",
+                "position,uncertainty", "15232.87,0.5", ""));
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I", "--format", "csv");
+        assertEquals(0, run.code(), run.err());
+        String[] header = run.out().lines().findFirst().orElseThrow().split(",");
+        String[] row = run.out().lines().skip(1).findFirst().orElseThrow().split(",");
+        int residual = java.util.Arrays.asList(header).indexOf("residual");
+        int sigma = java.util.Arrays.asList(header).indexOf("residual_sigma");
+        double r = Double.parseDouble(row[residual]);
+        double z = Double.parseDouble(row[sigma]);
+        assertTrue(r < 0 && z < 0, run.out());
+    }
 }

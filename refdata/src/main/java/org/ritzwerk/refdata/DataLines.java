@@ -73,7 +73,31 @@ public final class DataLines {
                 species.notation() + " has no level list in this data context"));
         Species own = list.info().species().stream().filter(c -> c.z() == species.z() && c.charge() == species.charge())
                 .findFirst().orElse(species);
-        return RitzLevels.of(list, own).withSpecies(species);
+        return ritzLevels(list, own).withSpecies(species);
+    }
+
+    /**
+     * Builds the Ritz levels of every species a level list covers, so a list the Ritz job could not
+     * use is refused when it is checked ({@code data check}), not when it is first used.
+     *
+     * @param list a level list
+     * @throws ReferenceDataException ({@code inconsistent}) naming the list and the level, e.g. a
+     *         label whose J differs from the J column
+     */
+    public static void checkLevels(LevelList list) {
+        Objects.requireNonNull(list, "list");
+        for (Species species : list.info().species()) {
+            ritzLevels(list, species);
+        }
+    }
+
+    private static RitzLevels ritzLevels(LevelList list, Species species) {
+        try {
+            return RitzLevels.of(list, species);
+        } catch (IllegalArgumentException e) {
+            throw new ReferenceDataException(ReferenceDataException.INCONSISTENT, "level list " + list.info().id()
+                    + " (" + species.notation() + "): " + e.getMessage());
+        }
     }
 
     /**

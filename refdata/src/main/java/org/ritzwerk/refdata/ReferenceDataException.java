@@ -21,6 +21,11 @@ public final class ReferenceDataException extends RitzwerkException {
      * level list without transition probabilities where lines must be ranked or rendered.
      */
     public static final String MISSING_QUANTITY = "refdata.missing-quantity";
+    /**
+     * Code: a data set's rows contradict themselves or each other, such as a level whose label
+     * names another J than its J column.
+     */
+    public static final String INCONSISTENT = "refdata.inconsistent";
     /** Code: a data set holds something its file format cannot hold, so it is not written. */
     public static final String NOT_WRITABLE = "refdata.not-writable";
 

@@ -244,8 +244,10 @@ public final class PlasmaEstimate {
         double doppler = Broadening.dopplerFwhm(m.frequency(), kelvin, mass) / m.frequency() * nm[0];
         double response = Double.isNaN(resolvingPower) ? instrumentFwhmNm : nm[0] / resolvingPower;
         double gaussian = Math.hypot(response, doppler);
-        String note = String.format(Locale.ROOT, "FWHM %.4g nm less Gaussian %.3g nm (instrument, Doppler at %.0f K%s)",
-                fwhmNm, gaussian, kelvin, assumed ? " assumed" : "");
+        boolean noInstrument = !(response > 0);
+        String note = String.format(Locale.ROOT, "FWHM %.4g nm less Gaussian %.3g nm (%sDoppler at %.0f K%s)",
+                fwhmNm, gaussian, noInstrument ? "no instrument width given, so only " : "instrument, ", kelvin,
+                assumed ? " assumed" : "");
         try {
             double stark = Profiles.lorentzFwhmOfVoigt(fwhmNm, gaussian);
             double density = BalmerStark.electronDensity(balmer, stark);

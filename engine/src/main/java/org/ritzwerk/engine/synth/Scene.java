@@ -172,7 +172,9 @@ public final class Scene {
                 top = Math.max(top, v);
             }
             if (!(top > 0)) {
-                throw new IllegalArgumentException("the continuum is zero over the whole grid");
+                throw new SceneException(SceneException.DARK_CONTINUUM, "the continuum is zero over the whole grid:"
+                        + " a black body too cold to emit at these wavelengths, or a continuum table with no density"
+                        + " in this range");
             }
             for (int p = 0; p < pixels; p++) {
                 expected[p] += shape[p] * (continuumCounts / top);

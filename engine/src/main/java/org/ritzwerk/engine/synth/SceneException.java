@@ -12,6 +12,8 @@ public final class SceneException extends RitzwerkException {
 
     /** Code: no line puts light into the grid and there is no continuum. */
     public static final String NO_LIGHT = "synth.no-light";
+    /** Code: the continuum given is zero at every pixel of the grid. */
+    public static final String DARK_CONTINUUM = "synth.dark-continuum";
     /** Code: a species' lines carry no transition probability, so they give no light to render. */
     public static final String NO_RATES = "synth.no-rates";
 
