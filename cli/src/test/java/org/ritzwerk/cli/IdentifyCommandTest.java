@@ -291,4 +291,21 @@ class IdentifyCommandTest {
         assertTrue(run.out().contains("(no instrument width given, so only Doppler at 12000 K)"), run.out());
         assertTrue(!run.out().contains("(instrument, Doppler"), run.out());
     }
+
+    /**
+     * A velocity search that matches no line (here every peak is ambiguous between fine-structure
+     * components) claims no velocity, and the peaks are identified against the lines at rest, not
+     * at the search's densest vote (which the table used to show while the summary said none).
+     */
+    @Test
+    void aSearchThatMatchesNothingLeavesTheLinesAtRest() {
+        CliTest.Run run = CliTest.run("identify", java.nio.file.Path.of("..", "examples", "data", "peaks.csv")
+                .toString(), "--species", "H I", "--components", "--search-velocity", "100", "--format", "csv");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.err().contains("no velocity in the searched range lets any line match, so none is given"),
+                run.err());
+        CliTest.Run rest = CliTest.run("identify", java.nio.file.Path.of("..", "examples", "data", "peaks.csv")
+                .toString(), "--species", "H I", "--components", "--format", "csv");
+        assertEquals(rest.out(), run.out(), "the same identification as without a search");
+    }
 }

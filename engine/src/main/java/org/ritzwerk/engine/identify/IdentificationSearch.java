@@ -93,14 +93,16 @@ public final class IdentificationSearch {
     public Report run(PeakList peaks, LineCatalog lines) {
         ShiftSearch.Fit velocity = null;
         LineCatalog used = lines;
+        // A search that matched no line claims no value (its densest vote is no measurement), so the
+        // lines are then identified where they are, not at that vote.
         if (!Double.isNaN(maxSpeed)) {
             velocity = ShiftSearch.redshift(identifier, peaks, lines, maxSpeed);
-            used = lines.shifted(velocity.value());
+            used = velocity.matches() == 0 ? lines : lines.shifted(velocity.value());
         }
         ShiftSearch.Fit offset = null;
         if (!Double.isNaN(maxOffset)) {
             offset = ShiftSearch.offset(identifier, peaks, used, maxOffset);
-            used = used.offset(offset.value());
+            used = offset.matches() == 0 ? used : used.offset(offset.value());
         }
         return new Report(identifier.identify(peaks, used), used, Optional.ofNullable(velocity),
                 Optional.ofNullable(offset));
