@@ -283,13 +283,20 @@ final class IdentifyCommand implements Callable<Integer> {
             builder.excitationTemperature(excitationTemperature);
         }
         LevelSets.Split levelSets = LevelSets.split(data.context(), species);
+        Ions.Atoms resolved = levelSets.others().isEmpty() ? new Ions.Atoms(List.of(), List.of())
+                : Ions.atoms(data.context(), levelSets.others(), model);
+        OptionRules rules = new OptionRules(spec);
+        String noIon = "without a one-electron ion in --species (it applies to their lines; alkali atoms and level"
+                + " lists bring their own)";
+        rules.refuseUnless("--model", !resolved.ions().isEmpty(), noIon);
+        rules.refuseUnless("--components", !resolved.ions().isEmpty(), noIon);
         for (var levels : levelSets.levels()) {
             // Ritz lines under the E1 and LS rules, with the context's A values (He I: lines-he-i)
             builder.lineSet(LineSet.ofRitz(DataLines.ritzLines(data.context(), levels.species()).withLsRules(true)
                     .compute(levels)));
         }
         if (!levelSets.others().isEmpty()) {
-            Ions.Atoms atoms = Ions.atoms(data.context(), levelSets.others(), model);
+            Ions.Atoms atoms = resolved;
             for (AlkaliAtom atom : atoms.alkalis()) {
                 builder.alkali(atom, nMax, Progress.on(spec.commandLine().getErr(), "identify: "
                         + atom.species().notation() + " lines"));

@@ -109,6 +109,13 @@ class InputErrorsTest {
         CliTest.Run twice = CliTest.run("identify", peaks.toString(), "--species", "H I,H");
         assertEquals(2, twice.code());
         assertTrue(twice.err().contains("--species names H I twice"), twice.err());
+        for (String option : new String[] {"--model", "--components"}) {
+            CliTest.Run noIon = option.equals("--model")
+                    ? CliTest.run("identify", peaks.toString(), "--species", "Rb-87 I", "--model", "bohr")
+                    : CliTest.run("identify", peaks.toString(), "--species", "He I", "--components");
+            assertEquals(2, noIon.code(), option);
+            assertTrue(noIon.err().contains(option + " has no effect without a one-electron ion"), noIon.err());
+        }
         CliTest.Run lists = CliTest.run("identify", peaks.toString(), "--species", "H I", "--lines", "lamp-ne-i",
                 "--lines", "lamp-ne-i");
         assertEquals(2, lists.code());
