@@ -158,6 +158,15 @@ class SeriesCommandTest {
         CliTest.Run tooFew = CliTest.run("series", few.toString());
         assertEquals(2, tooFew.code());
         assertTrue(tooFew.err().contains("few.csv: a fit with 2 parameters needs at least 3 members"), tooFew.err());
+
+        // energies that fall with n are no Rydberg series: refused with the line, not fitted into nonsense
+        Path falling = dir.resolve("falling.csv");
+        Files.writeString(falling, "# ritzwerk-series 1\n# species: Rb-87 I\n# energy-unit: cm-1\n"
+                + "series,n,energy,uncertainty\nnS1/2,20,33438.82,0.01\nnS1/2,22,33382.57,0.01\nnS1/2,24,33450.1,0.01\n");
+        CliTest.Run down = CliTest.run("series", falling.toString());
+        assertEquals(2, down.code(), down.out());
+        assertTrue(down.err().contains("falling.csv:6:3: column energy: series 'nS1/2': the energy of n = 22 is not"
+                + " above that of n = 20 (line 5)"), down.err());
     }
 
     @Test

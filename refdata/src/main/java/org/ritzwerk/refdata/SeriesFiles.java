@@ -105,6 +105,7 @@ public final class SeriesFiles {
         }
         Map<String, RydbergSeries.Builder> builders = new LinkedHashMap<>();
         Map<String, Integer> seen = new HashMap<>();
+        Map<String, java.util.TreeMap<Integer, Map.Entry<Double, TabularFiles.Row>>> members = new LinkedHashMap<>();
         for (TabularFiles.Row row : p.rows) {
             int before = p.problems.size();
             String name = p.text(row, "series");
@@ -135,7 +136,23 @@ public final class SeriesFiles {
             }
             builders.computeIfAbsent(name.strip(), RydbergSeries::builder).add((int) n, energy * factor,
                     uncertainty * factor, p.source + ":" + row.line());
+            members.computeIfAbsent(name.strip(), k -> new java.util.TreeMap<>()).put((int) n,
+                    Map.entry(energy * factor, row));
         }
+        // A Rydberg series rises towards its limit: a member below one of lower n is a typing error
+        // (or a member of another series), which a fit would only turn into nonsense defects.
+        members.forEach((name, byN) -> {
+            Map.Entry<Integer, Map.Entry<Double, TabularFiles.Row>> previous = null;
+            for (Map.Entry<Integer, Map.Entry<Double, TabularFiles.Row>> member : byN.entrySet()) {
+                if (previous != null && !(member.getValue().getKey() > previous.getValue().getKey())) {
+                    p.rowProblem(member.getValue().getValue(), "energy", "data.not-rising", String.format(
+                            java.util.Locale.ROOT, "series '%s': the energy of n = %d is not above that of n = %d"
+                                    + " (line %d); a Rydberg series rises towards its limit", name, member.getKey(),
+                            previous.getKey(), previous.getValue().getValue().line()));
+                }
+                previous = member;
+            }
+        });
         if (p.problems.isEmpty() && builders.isEmpty()) {
             p.problem(1, 0, "data.empty", "the file has no members", "");
         }
