@@ -105,6 +105,16 @@ class InputErrorsTest {
         assertEquals(2, lines.code(), lines.err());
         assertTrue(lines.err().contains("level list levels-he-i (He I): level '1s2p 3P2'"), lines.err());
 
+        // peaks in air outside the air model are named by file, line and column, every one of them
+        Path air = dir.resolve("air.csv");
+        Files.writeString(air, String.join("\n", "# ritzwerk-peaks 1", "# id: t", "# title: t", "# source: s",
+                "# provenance: measured", "# version: 1", "# position-unit: nm", "# medium: air",
+                "position,uncertainty", "121.5,0.01", "500,0.01", "3000,0.01", ""));
+        CliTest.Run outside = CliTest.run("identify", air.toString(), "--species", "H I");
+        assertEquals(2, outside.code());
+        assertTrue(outside.err().contains("air.csv:10:1: column position: wavelength 121.5 nm (air) is outside")
+                && outside.err().contains("air.csv:12:1: column position: wavelength 3000 nm (air)"), outside.err());
+
         Path peaks = Path.of("..", "examples", "data", "peaks.csv");
         CliTest.Run twice = CliTest.run("identify", peaks.toString(), "--species", "H I,H");
         assertEquals(2, twice.code());

@@ -125,6 +125,17 @@ public final class PeakFiles {
         if (n == 0 && p.problems.isEmpty()) {
             p.problem(1, 0, "data.empty", "the file has no peaks", "");
         }
+        if (p.problems.isEmpty() && unit.kind() == Kind.WAVELENGTH && medium != null) {
+            // every position must lie where the medium's model converts it (air: 200 nm to 2.5 um)
+            for (int k = 0; k < n; k++) {
+                try {
+                    medium.toVacuum(unit.toSi(positions[k]));
+                } catch (org.ritzwerk.medium.MediumException e) {
+                    p.problem(lines[k], p.columnIndex.getOrDefault("position", 0), "data.outside-medium",
+                            "column position: " + e.getMessage(), "");
+                }
+            }
+        }
         p.throwIfAny();
         return new Peaks(p.header.get("id"), unit, unit.kind() == Kind.WAVELENGTH ? medium : null, positions,
                 uncertainties, intensities, widths, lines);

@@ -53,7 +53,8 @@ class WrittenFilesReadBackTest {
                     double[] intensities = new double[n];
                     double[] widths = new double[n];
                     for (int k = 0; k < n; k++) {
-                        positions[k] = wavelength ? 100 + 2000 * r.nextDouble() : anyDouble(r, true);
+                        // air wavelengths where the standard-air model takes them (200 nm to 2.5 um; outside they are refused)
+                        positions[k] = wavelength ? 200.5 + 2000 * r.nextDouble() : anyDouble(r, true);
                         sigmas[k] = r.nextInt(4) == 0 ? Double.NaN : anyDouble(r, true);
                         intensities[k] = r.nextInt(4) == 0 ? Double.NaN : r.nextInt(8) == 0 ? 0.0 : anyDouble(r, true);
                         widths[k] = r.nextInt(4) == 0 ? Double.NaN : anyDouble(r, true);
