@@ -264,16 +264,25 @@ final class IdentifyCommand implements Callable<Integer> {
     }
 
     /**
-     * Under a k-sigma tolerance a peak that states an uncertainty of 0 could only match a line of
-     * uncertainty 0 exactly: refuse it, naming the file line, instead of leaving it unexplained.
+     * Under a k-sigma tolerance every peak needs a positive uncertainty: one of 0 could only match a
+     * line of uncertainty 0 exactly, and one left empty cannot be weighed. Refuses them all, each
+     * named by its file line, instead of leaving them unexplained.
      */
     private static void refuseZeroUncertainties(PeakFiles.Peaks read, Path file) {
+        List<String> bad = new java.util.ArrayList<>();
         for (int i = 0; i < read.size(); i++) {
-            if (read.uncertainties()[i] == 0) {
-                throw new OptionException(file + ":" + read.lines()[i] + ": the peak's uncertainty"
-                        + " is 0, which can never match under a sigma tolerance; give its standard uncertainty, leave"
-                        + " it empty and use a width tolerance such as --tolerance \"0.02 nm\"");
+            double u = read.uncertainties()[i];
+            if (u == 0 || Double.isNaN(u)) {
+                bad.add(file + ":" + read.lines()[i] + ": the peak's uncertainty is "
+                        + (u == 0 ? "0, which can never match" : "not given, which cannot be weighed"));
             }
+        }
+        if (!bad.isEmpty()) {
+            throw new OptionException(bad.size() + " peak(s) cannot be matched under a sigma tolerance:\n  "
+                    + String.join("\n  ", bad.subList(0, Math.min(bad.size(), 10)))
+                    + (bad.size() > 10 ? "\n  and " + (bad.size() - 10) + " more" : "")
+                    + "\ngive each peak its standard uncertainty, or leave them empty and use a width tolerance such"
+                    + " as --tolerance \"0.02 nm\"");
         }
     }
 

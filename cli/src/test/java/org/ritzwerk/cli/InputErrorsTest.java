@@ -115,6 +115,16 @@ class InputErrorsTest {
         assertTrue(outside.err().contains("air.csv:10:1: column position: wavelength 121.5 nm (air) is outside")
                 && outside.err().contains("air.csv:12:1: column position: wavelength 3000 nm (air)"), outside.err());
 
+        // under a sigma tolerance every peak without a usable uncertainty is named, not only the first
+        Path mixed = dir.resolve("mixed.csv");
+        Files.writeString(mixed, String.join("\n", "# ritzwerk-peaks 1", "# id: t", "# title: t", "# source: s",
+                "# provenance: measured", "# version: 1", "# position-unit: nm", "# medium: air",
+                "position,uncertainty", "656.27,0.01", "486.13,", "434.04,0", ""));
+        CliTest.Run sigma = CliTest.run("identify", mixed.toString(), "--species", "H I", "--tolerance", "5 sigma");
+        assertEquals(2, sigma.code());
+        assertTrue(sigma.err().contains("mixed.csv:11: the peak's uncertainty is not given")
+                && sigma.err().contains("mixed.csv:12: the peak's uncertainty is 0"), sigma.err());
+
         Path peaks = Path.of("..", "examples", "data", "peaks.csv");
         CliTest.Run twice = CliTest.run("identify", peaks.toString(), "--species", "H I,H");
         assertEquals(2, twice.code());
