@@ -408,10 +408,10 @@ public final class Identification {
             density = length > 0 ? (counted - 1) / length : Double.POSITIVE_INFINITY;
         } else {
             double length = (hi - lo) - excluded;
-            density = counted == 0 ? 0 : length > 0 ? counted / length : Double.POSITIVE_INFINITY;
+            density = counted == 0 || !(length > 0) ? Double.POSITIVE_INFINITY : counted / length;
         }
-        // (0 when the window is empty; a density that cannot be told from a single point counts
-        // as infinite, so chance explains everything there)
+        // (every peak inside the window, or a density that cannot be told from a single point,
+        // counts as infinite: chance explains everything there)
         double rate = density * 2 * h;
         return rate > 0 ? -Math.expm1(-rate) : 0;
     }

@@ -120,6 +120,10 @@ class IdentificationRulesTest {
         }
         double p = Identification.chanceRate(sorted, 1000.5e-9, 0.05e-9);
         assertEquals(-Math.expm1(-0.1), p, 0.2 * p);
+        // A window wider than every peak's spread holds them all: chance certainly puts one there
+        // (it gave 0, no peak being left outside to measure a density from).
+        assertEquals(1.0, Identification.chanceRate(sorted, 1000e-9, 1e-3), 0.0);
+        assertEquals(1.0, Identification.chanceRate(new double[] {500e-9}, 500e-9, 1e-9), 0.0);
     }
 
     /**
