@@ -13,7 +13,16 @@ public final class Main {
     }
 
     /** @param args command-line arguments */
+    /**
+     * The LAPACK binding logs a warning through java.util.logging each time it falls back from a
+     * native library to its Java implementation (the usual case on a machine without one): the
+     * same numbers, so the command line keeps it off the user's standard error. Held here so the
+     * logger, and its level, are not collected.
+     */
+    private static final java.util.logging.Logger NETLIB = java.util.logging.Logger.getLogger("dev.ludovic.netlib");
+
     public static void main(String[] args) {
+        NETLIB.setLevel(java.util.logging.Level.SEVERE);
         // Standard output into a file or pipe is buffered and flushed at the end, not after every
         // line: a table of millions of rows would otherwise cost a system call a row. On a terminal
         // each line shows at once, as a person reads along.
