@@ -15,7 +15,7 @@ import java.util.regex.Pattern;
 public record State(int n, int l, int twoJ) {
 
     private static final String LETTERS = "spdfghiklmnoqrtuv";
-    private static final Pattern TEXT = Pattern.compile("(\\d{1,4})([a-z])(\\d{1,3})/2");
+    private static final Pattern TEXT = Pattern.compile("(\\d{1,9})([a-z])(\\d{1,3})/2");
 
     /**
      * Validates the quantum numbers.

@@ -161,4 +161,15 @@ class RydbergCommandTest {
             }
         }
     }
+
+    /** A state beyond n = 2000 (the range of levels and lines) is refused by its n, however many digits it has. */
+    @Test
+    void statesBeyondTheComputedRangeAreRefusedByTheirN() {
+        for (String state : new String[] {"2001s1/2", "10000s1/2"}) {
+            CliTest.Run run = CliTest.run("rydberg", "polarizability", "--species", "Rb-87 I", "--state", state);
+            assertEquals(2, run.code(), state);
+            assertTrue(run.err().contains("--state: n = " + state.substring(0, state.indexOf('s'))
+                    + " is beyond the states these commands compute (n at most 2000"), run.err());
+        }
+    }
 }
