@@ -126,6 +126,12 @@ class InputErrorsTest {
                 && sigma.err().contains("mixed.csv:12: the peak's uncertainty is 0"), sigma.err());
 
         Path peaks = Path.of("..", "examples", "data", "peaks.csv");
+        // a peak list or a series given as a data file is named for what it is
+        CliTest.Run notData = CliTest.run("data", "check", peaks.toString(),
+                Path.of("..", "examples", "data", "rb87-series.csv").toString());
+        assertEquals(2, notData.code());
+        assertTrue(notData.err().contains("peaks.csv: this is a ritzwerk-peaks file, a peak list")
+                && notData.err().contains("rb87-series.csv: this is a ritzwerk-series file"), notData.err());
         CliTest.Run twice = CliTest.run("identify", peaks.toString(), "--species", "H I,H");
         assertEquals(2, twice.code());
         assertTrue(twice.err().contains("--species names H I twice"), twice.err());
