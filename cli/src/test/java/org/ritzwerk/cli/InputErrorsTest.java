@@ -126,6 +126,13 @@ class InputErrorsTest {
                 && sigma.err().contains("mixed.csv:12: the peak's uncertainty is 0"), sigma.err());
 
         Path peaks = Path.of("..", "examples", "data", "peaks.csv");
+        // a truncated JSON file: the parser's syntax message, without its notes about itself
+        Path cut = dir.resolve("cut.json");
+        Files.writeString(cut, "{\"format\": \"ritzwerk-peaks\", \"peaks\": [{\"position\": 5");
+        CliTest.Run truncated = CliTest.run("identify", cut.toString(), "--species", "H I");
+        assertEquals(2, truncated.code());
+        assertTrue(truncated.err().contains("JSON syntax: Unexpected end-of-input") && !truncated.err().contains(
+                "Source: REDACTED"), truncated.err());
         // a peak list or a series given as a data file is named for what it is
         CliTest.Run notData = CliTest.run("data", "check", peaks.toString(),
                 Path.of("..", "examples", "data", "rb87-series.csv").toString());

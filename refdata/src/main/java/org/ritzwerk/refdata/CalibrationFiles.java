@@ -252,7 +252,7 @@ public final class CalibrationFiles {
         try {
             root = JsonMapper.builder().enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).build().readTree(text);
         } catch (JacksonException e) {
-            throw invalid(source, "not valid JSON: " + e.getOriginalMessage());
+            throw invalid(source, "not valid JSON: " + TabularFiles.readable(e));
         }
         if (!root.isObject() || !FORMAT.equals(root.path("format").asString(null))) {
             throw invalid(source, "expected a JSON object with \"format\": \"" + FORMAT + "\"");

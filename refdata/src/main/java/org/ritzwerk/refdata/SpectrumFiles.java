@@ -327,7 +327,7 @@ public final class SpectrumFiles {
             root = JsonMapper.builder().enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).build().readTree(text);
         } catch (JacksonException e) {
             throw new DataFileException(DataFileException.INVALID, source, List.of(),
-                    "not valid JSON: " + e.getOriginalMessage());
+                    "not valid JSON: " + TabularFiles.readable(e));
         }
         if (!root.isObject() || !FORMAT.equals(root.path("format").asString(null))) {
             throw new DataFileException(DataFileException.INVALID, source, List.of(),

@@ -189,7 +189,7 @@ public final class SyntheticSpectrumFiles {
             g.writeEndArray();
             g.writeEndObject();
         } catch (JacksonException e) {
-            throw new IOException("cannot write the JSON document: " + e.getOriginalMessage(), e);
+            throw new IOException("cannot write the JSON document: " + TabularFiles.readable(e), e);
         }
         out.write("\n");
     }
@@ -305,7 +305,7 @@ public final class SyntheticSpectrumFiles {
             int line = e.getLocation() == null ? 1 : Math.max(1, e.getLocation().getLineNr());
             int column = e.getLocation() == null ? 0 : Math.max(0, e.getLocation().getColumnNr());
             throw new DataFileException(DataFileException.INVALID, source, List.of(new DataProblem(source, line, column,
-                    "data.json-syntax", "JSON syntax: " + e.getOriginalMessage(), "")), "");
+                    "data.json-syntax", "JSON syntax: " + TabularFiles.readable(e), "")), "");
         }
         SpectrumFiles.Spectrum pixels = SpectrumFiles.json(source, text);
         JsonNode axis = root.path("axis");

@@ -664,11 +664,24 @@ final class TabularFiles {
         return new java.io.BufferedReader(new java.io.InputStreamReader(Files.newInputStream(file), decoder), 1 << 16);
     }
 
+    /**
+     * A parser's message without the parts that describe the parser rather than the file (the
+     * "[Source: ...]" location note the reader prints when it hides the source).
+     *
+     * @param e the parser's exception
+     * @return its message for a user
+     */
+    static String readable(JacksonException e) {
+        String text = e.getOriginalMessage();
+        return text == null ? "" : text.replaceAll("\\s*\\(start marker at \\[Source:[^\\]]*\\]\\)", "")
+                .replaceAll("\\s*\\[Source:[^\\]]*\\]", "").strip();
+    }
+
     private static void csvSyntax(Parsed p, JacksonException e) {
         TokenStreamLocation where = e.getLocation();
         int line = where == null ? 1 : Math.max(where.getLineNr(), 1);
         p.problem(line, where == null ? 0 : Math.max(where.getColumnNr(), 0), "data.csv-syntax",
-                "CSV syntax: " + e.getOriginalMessage(), "");
+                "CSV syntax: " + readable(e), "");
     }
 
     /**
@@ -867,7 +880,7 @@ final class TabularFiles {
             TokenStreamLocation where = e.getLocation();
             int line = where == null ? 1 : Math.max(where.getLineNr(), 1);
             p.problem(line, where == null ? 0 : Math.max(where.getColumnNr(), 0), "data.json-syntax",
-                    "JSON syntax: " + e.getOriginalMessage(), "");
+                    "JSON syntax: " + readable(e), "");
             return p;
         }
         if (!spec.format().equals(format)) {
