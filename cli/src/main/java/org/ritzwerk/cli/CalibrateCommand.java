@@ -252,6 +252,7 @@ final class CalibrateCommand implements Callable<Integer> {
         inputs.add(new OutputFiles.Named("SPECTRUM_FILE", spectrumFile));
         inputs.add(new OutputFiles.Named("--apply", apply));
         OutputFiles.check(List.of(new OutputFiles.Named("--out", out), new OutputFiles.Named("--plot", plot)), inputs);
+        OptionRules.png("--plot", plot);
     }
 
     private Calibrator calibrator() {

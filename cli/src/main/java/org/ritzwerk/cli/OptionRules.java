@@ -63,6 +63,22 @@ final class OptionRules {
      * @throws OptionException naming the option and the allowed range
      */
     /**
+     * Refuses a PNG output whose name does not end in .png (the file would be a PNG under another
+     * name).
+     *
+     * @param option the option, for the message
+     * @param file   the file, or null when not given
+     * @throws OptionException naming the option and the file
+     */
+    static void png(String option, java.nio.file.Path file) {
+        // a device or pipe (/dev/stdout) takes the PNG under any name
+        boolean special = file != null && java.nio.file.Files.exists(file) && !java.nio.file.Files.isRegularFile(file);
+        if (file != null && !special && !file.toString().toLowerCase(Locale.ROOT).endsWith(".png")) {
+            throw new OptionException(option + " must name a .png file, got " + file);
+        }
+    }
+
+    /**
      * Refuses a repeatable option that names one value twice (a line list given twice would be
      * counted twice).
      *

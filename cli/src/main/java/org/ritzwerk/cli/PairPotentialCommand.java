@@ -124,6 +124,7 @@ final class PairPotentialCommand implements Callable<Integer> {
         }
         AlkaliAtom atom = common.atom();
         if (plot != null) {
+            OptionRules.png("--plot", plot);
             OutputFiles.check(List.of(new OutputFiles.Named("--plot", plot)), common.data.inputs(List.of()));
         }
         int count = rMax == rMin ? 1 : steps + 1;

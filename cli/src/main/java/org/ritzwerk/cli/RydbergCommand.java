@@ -233,6 +233,7 @@ final class RydbergCommand implements Runnable {
                 throw new OptionException("--l-max " + lMax + " leaves out the state's l = " + state.l());
             }
             if (plot != null) {
+                OptionRules.png("--plot", plot);
                 OutputFiles.check(List.of(new OutputFiles.Named("--plot", plot)), common.data.inputs(List.of()));
             }
             StarkMap map = StarkMap.builder(atom).projection(twoMj).principalRange(low, high).maxOrbital(lMax).build()

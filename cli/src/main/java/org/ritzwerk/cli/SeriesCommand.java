@@ -101,9 +101,7 @@ final class SeriesCommand implements Callable<Integer> {
                 throw new OptionException("--predict: n must be 1 to 10000, got " + n);
             }
         }
-        if (plot != null && !plot.toString().toLowerCase(java.util.Locale.ROOT).endsWith(".png")) {
-            throw new OptionException("--plot must name a .png file, got " + plot);
-        }
+        OptionRules.png("--plot", plot);
         if (plot != null) {
             // Before any work: the plot may not be an input, and its folder must exist and be writable.
             List<OutputFiles.Named> inputs = data.inputs(List.of());

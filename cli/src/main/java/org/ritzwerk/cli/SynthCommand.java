@@ -571,6 +571,7 @@ final class SynthCommand implements Callable<Integer> {
         inputs.add(new OutputFiles.Named("--continuum-file", continuumFile));
         OutputFiles.check(List.of(new OutputFiles.Named("--out", out), new OutputFiles.Named("--truth", truth),
                 new OutputFiles.Named("--plot", plot)), inputs);
+        OptionRules.png("--plot", plot);
     }
 
     /** Where the scene's levels come from, per kind of species, for the files' headers; set by the run. */

@@ -126,6 +126,13 @@ class InputErrorsTest {
                 && sigma.err().contains("mixed.csv:12: the peak's uncertainty is 0"), sigma.err());
 
         Path peaks = Path.of("..", "examples", "data", "peaks.csv");
+        // a PNG output must be named .png, in every command that draws one
+        CliTest.Run txt = CliTest.run("synth", "--species", "H I", "--from", "400 nm", "--to", "700 nm",
+                "--temperature", "10000", "--out", dir.resolve("s.csv").toString(), "--plot",
+                dir.resolve("s.txt").toString());
+        assertEquals(2, txt.code());
+        assertTrue(txt.err().contains("--plot must name a .png file"), txt.err());
+        assertTrue(!Files.exists(dir.resolve("s.txt")) && !Files.exists(dir.resolve("s.csv")));
         // a truncated JSON file: the parser's syntax message, without its notes about itself
         Path cut = dir.resolve("cut.json");
         Files.writeString(cut, "{\"format\": \"ritzwerk-peaks\", \"peaks\": [{\"position\": 5");
