@@ -175,6 +175,18 @@ final class SeriesCommand implements Callable<Integer> {
                 out.printf(java.util.Locale.ROOT, "Known limit %s +- %s cm-1 taken as a datum%n%n", limit.get(0),
                         limit.get(1));
             }
+        } else {
+            // the text's first line, as a row of its own for scripts
+            Table summary = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("species", "species"),
+                    Table.Column.number("series", "series", "%d"), Table.Column.number("members", "members", "%d"),
+                    Table.Column.number("rydberg_per_cm", "R_M cm-1", "%.9g"),
+                    Table.Column.number("chi_square", "chi2", "%.6g"),
+                    Table.Column.number("degrees_of_freedom", "dof", "%d"),
+                    Table.Column.text("known_limit", "known limit")), out, format);
+            summary.add("fit", contents.species().notation(), fit.series().size(),
+                    fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
+                    fit.degreesOfFreedom(), limit.isEmpty() ? null : limit.get(0) + " +- " + limit.get(1) + " cm-1");
+            summary.finish();
         }
         Table parameters = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("parameter", "parameter"),
                 Table.Column.number("value", "value", "%.11g"), Table.Column.number("uncertainty", "uncertainty", "%.3g"),

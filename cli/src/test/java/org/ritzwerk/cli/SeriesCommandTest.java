@@ -37,6 +37,7 @@ class SeriesCommandTest {
         Map<String, JsonNode> parameters = new HashMap<>();
         int members = 0;
         int predictions = 0;
+        int fits = 0;
         for (String line : run.out().strip().split("\\R")) {
             JsonNode row = json.readTree(line);
             switch (row.get("kind").asString()) {
@@ -46,11 +47,19 @@ class SeriesCommandTest {
                     assertTrue(Math.abs(row.get("normalised_residual").asDouble()) < 1e-3, line);
                 }
                 case "prediction" -> predictions++;
+                case "fit" -> {
+                    // the text's first line as a row: species, counts, R_M, chi2 and its degrees of freedom
+                    assertEquals("Rb-87 I", row.get("species").asString());
+                    assertEquals(22, row.get("members").asInt());
+                    assertEquals(17, row.get("degrees_of_freedom").asInt());
+                    fits++;
+                }
                 default -> { }
             }
         }
         assertEquals(22, members);
         assertEquals(2, predictions);
+        assertEquals(1, fits);
         assertEquals(LIMIT, parameters.get("limit").get("value").asDouble(), 1e-6);
         // d0, d2 of the built-in set (Mack et al. 2011): nS1/2 3.1311807, 0.1787; nD5/2 1.3464622, -0.594
         assertEquals(3.1311807, parameters.get("nS1/2 d0").get("value").asDouble(), 1e-8);
@@ -65,7 +74,9 @@ class SeriesCommandTest {
         assertTrue(text.out().contains("models tried") && text.out().contains("[2,2]"), text.out());
         CliTest.Run csv = CliTest.run("series", file.toString(), "--format", "csv");
         assertEquals(0, csv.code(), csv.err());
-        assertTrue(csv.out().startsWith("kind,parameter,value,uncertainty,unit"), csv.out());
+        assertTrue(csv.out().startsWith("kind,species,series,members,rydberg_per_cm,chi_square,degrees_of_freedom,"
+                + "known_limit\nfit,\"Rb-87 I\",2,22,") && csv.out().contains("\nkind,parameter,value,uncertainty,unit\n"),
+                csv.out());
     }
 
     @Test

@@ -121,8 +121,8 @@ public final class Profiles {
         check("Voigt", voigtFwhm, true);
         check("Gaussian", gaussianFwhm, true);
         if (voigtFwhm < gaussianFwhm) {
-            throw new IllegalArgumentException("a Voigt FWHM of " + voigtFwhm + " is narrower than its Gaussian part "
-                    + gaussianFwhm + "; no Lorentzian width fits");
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "a Voigt FWHM of %.6g is"
+                    + " narrower than its Gaussian part %.6g; no Lorentzian width fits", voigtFwhm, gaussianFwhm));
         }
         // (f_V - 0.5346 f_L)^2 = 0.2166 f_L^2 + f_G^2, i.e. a f_L^2 - 1.0692 f_V f_L + f_V^2 - f_G^2 = 0.
         double a = 0.5346 * 0.5346 - 0.2166;
