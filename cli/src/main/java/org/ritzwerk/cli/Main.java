@@ -12,7 +12,6 @@ public final class Main {
     private Main() {
     }
 
-    /** @param args command-line arguments */
     /**
      * The LAPACK binding logs a warning through java.util.logging each time it falls back from a
      * native library to its Java implementation (the usual case on a machine without one): the
@@ -21,6 +20,7 @@ public final class Main {
      */
     private static final java.util.logging.Logger NETLIB = java.util.logging.Logger.getLogger("dev.ludovic.netlib");
 
+    /** @param args command-line arguments */
     public static void main(String[] args) {
         NETLIB.setLevel(java.util.logging.Level.SEVERE);
         // Standard output into a file or pipe is buffered and flushed at the end, not after every
