@@ -136,6 +136,7 @@ final class SeriesCommand implements Callable<Integer> {
         } catch (RitzException e) {
             throw new RitzException(e.code(), file + ": " + e.getMessage());
         }
+        checkPredictions(fit);
         print(fit, contents);
         if (plot != null) {
             try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
@@ -157,6 +158,34 @@ final class SeriesCommand implements Callable<Integer> {
             }
         }
         return 0;
+    }
+
+    /**
+     * Before anything is printed: refuses a --predict n where a series has no level (no positive
+     * effective n), and notes each n below a series' lowest member, where the fitted expansion is
+     * extrapolated downwards.
+     */
+    private void checkPredictions(SeriesFit fit) {
+        for (int s = 0; s < fit.series().size(); s++) {
+            RydbergSeries one = fit.series().get(s);
+            int lowest = Integer.MAX_VALUE;
+            for (int i = 0; i < one.size(); i++) {
+                lowest = Math.min(lowest, one.n(i));
+            }
+            for (int n : predict) {
+                SeriesFit.Member m = fit.predict(s, n);
+                if (!(n - m.quantumDefect() > 0) || !Double.isFinite(m.energyPerCm())) {
+                    throw new OptionException(String.format(java.util.Locale.ROOT, "--predict %d: series %s has no"
+                            + " member there (its fitted defect %.4f leaves no positive effective n)", n, one.name(),
+                            m.quantumDefect()));
+                }
+                if (n < lowest) {
+                    spec.commandLine().getErr().println(String.format(java.util.Locale.ROOT, "note: --predict %d lies"
+                            + " below the lowest member of %s (n = %d): the defect expansion is extrapolated downwards"
+                            + " there, where it usually fails", n, one.name(), lowest));
+                }
+            }
+        }
     }
 
     private String limitText() {

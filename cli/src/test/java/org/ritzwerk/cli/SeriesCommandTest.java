@@ -170,6 +170,17 @@ class SeriesCommandTest {
         assertEquals(2, tooFew.code());
         assertTrue(tooFew.err().contains("few.csv: a fit with 2 parameters needs at least 3 members"), tooFew.err());
 
+        // a prediction where a series has no level is refused before anything is printed; one below the
+        // members is noted
+        Path good = example(dir);
+        CliTest.Run none = CliTest.run("series", good.toString(), "--predict", "1,60");
+        assertEquals(2, none.code());
+        assertTrue(none.out().isEmpty() && none.err().contains("--predict 1: series nS1/2 has no member there"),
+                none.out() + none.err());
+        CliTest.Run low = CliTest.run("series", good.toString(), "--predict", "8");
+        assertEquals(0, low.code(), low.err());
+        assertTrue(low.err().contains("note: --predict 8 lies below the lowest member of nS1/2 (n = 20)"), low.err());
+
         // energies that fall with n are no Rydberg series: refused with the line, not fitted into nonsense
         Path falling = dir.resolve("falling.csv");
         Files.writeString(falling, "# ritzwerk-series 1\n# species: Rb-87 I\n# energy-unit: cm-1\n"
