@@ -485,6 +485,13 @@ final class RydbergCommand implements Runnable {
                     at.polarisation(), Math.abs(atom.frequencyHz(lower, upper)) / 1e9, at.dipoleEa0(),
                     at.fieldVPerM(), at.splittingHz() / 1e6);
             table.finish();
+            double frequency = Math.abs(atom.frequencyHz(lower, upper));
+            if (at.splittingHz() > 0.1 * frequency) {
+                spec.commandLine().getErr().println(String.format(java.util.Locale.ROOT, "note: the splitting is %.3g"
+                        + " times the transition frequency; the two-level, rotating-wave picture behind it holds only"
+                        + " for a splitting well below the frequency (and below the detuning to other transitions),"
+                        + " so the figure is not physical here", at.splittingHz() / frequency));
+            }
             return 0;
         }
     }

@@ -172,4 +172,21 @@ class RydbergCommandTest {
                     + " is beyond the states these commands compute (n at most 2000"), run.err());
         }
     }
+
+    /**
+     * An Autler-Townes splitting far above the transition frequency (1 V/m on a 0.4 MHz transition
+     * at n = 2000) is no physical figure: the command says so; an ordinary one carries no note.
+     */
+    @Test
+    void aSplittingBeyondTheTwoLevelPictureIsNoted() {
+        CliTest.Run wild = CliTest.run("rydberg", "microwave", "--species", "Rb-87 I", "--state", "2000s1/2", "--to",
+                "2000p3/2", "--field", "1");
+        assertEquals(0, wild.code(), wild.err());
+        assertTrue(wild.err().contains("times the transition frequency; the two-level, rotating-wave picture"),
+                wild.err());
+        CliTest.Run usual = CliTest.run("rydberg", "microwave", "--species", "Rb-87 I", "--state", "51p3/2", "--to",
+                "50d5/2", "--splitting", "10");
+        assertEquals(0, usual.code(), usual.err());
+        assertTrue(!usual.err().contains("note:"), usual.err());
+    }
 }
