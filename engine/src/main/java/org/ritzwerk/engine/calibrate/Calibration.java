@@ -20,6 +20,8 @@ public final class Calibration {
     private final DispersionSolution solution;
     private final LampMatch saturatedPairs;
     private final List<String> pairLabels;
+    /** {@link #largestSigmaPixels()} and the pixel where it is reached, computed once. */
+    private final double[] largestSigma;
 
     Calibration(CalibrationProblem problem, Calibrator settings, Peaks peaks, LampMatch firstMatch, LampMatch match,
             LampMatch saturatedPairs, DispersionSolution solution) {
@@ -35,6 +37,7 @@ public final class Calibration {
             labels.add(problem.lamp().label(match.lineIndex(i)));
         }
         this.pairLabels = List.copyOf(labels);
+        this.largestSigma = findLargestSigma();
     }
 
     /** @return the problem solved */
@@ -170,15 +173,15 @@ public final class Calibration {
      * @return the uncertainty in pixels; NaN when the solution has no covariance
      */
     public double largestSigmaPixels() {
-        return largestSigma()[0];
+        return largestSigma[0];
     }
 
     /** @return the pixel where {@link #largestSigmaPixels()} is reached */
     public double largestSigmaAtPixel() {
-        return largestSigma()[1];
+        return largestSigma[1];
     }
 
-    private double[] largestSigma() {
+    private double[] findLargestSigma() {
         double from = lowestUsedPixel();
         double to = highestUsedPixel();
         double worst = Double.NEGATIVE_INFINITY;
