@@ -140,11 +140,7 @@ public final class DataLines {
         }
         RitzLevels levels = levels(context, species);
         LineSet lines = LineSet.ofRitz(ritzLines(context, species).compute(levels));
-        boolean rated = false;
-        for (int i = 0; i < lines.size() && !rated; i++) {
-            rated = lines.einsteinA(i).isPresent() && lines.upperWeight(i).isPresent();
-        }
-        if (!rated) {
+        if (!LampSet.anyRated(lines)) {
             throw new ReferenceDataException(ReferenceDataException.MISSING_QUANTITY, species.notation()
                     + ": no lamp set, and none of the " + lines.size() + " Ritz lines of its level list has an Einstein"
                     + " A (the data have no companion line list with rates), so its lines cannot be ranked as a"

@@ -180,13 +180,31 @@ public final class LampSet {
      */
     public static LampSet ofRates(LineSet lines, Medium medium) {
         Objects.requireNonNull(lines, "lines");
-        LineSet rated = lines.filter(i -> lines.einsteinA(i).isPresent() && lines.upperWeight(i).isPresent());
+        LineSet rated = lines.filter(i -> rated(lines, i));
         if (rated.isEmpty()) {
             throw new IllegalArgumentException("no line of the " + lines.size() + " lines has an Einstein A and an upper"
                     + " statistical weight, which a lamp without intensities needs");
         }
         return of(rated, medium, i -> rated.upperWeight(i).getAsInt() * rated.einsteinA(i).getAsDouble(),
                 lines.size() - rated.size());
+    }
+
+    /**
+     * @param lines lines
+     * @return whether {@link #ofRates} can rank them: at least one has an A value and an upper weight
+     */
+    public static boolean anyRated(LineSet lines) {
+        Objects.requireNonNull(lines, "lines");
+        for (int i = 0; i < lines.size(); i++) {
+            if (rated(lines, i)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private static boolean rated(LineSet lines, int i) {
+        return lines.einsteinA(i).isPresent() && lines.upperWeight(i).isPresent();
     }
 
     private static LampSet of(LineSet lines, Medium medium, IntToDoubleFunction intensityOf, int withoutRate) {
