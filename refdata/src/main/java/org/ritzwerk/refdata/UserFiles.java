@@ -57,18 +57,17 @@ public final class UserFiles {
                     new ByteArrayInputStream(text.getBytes(StandardCharsets.UTF_8)), name, nuclear.get());
             return new UserFile(content.defects(), Optional.empty());
         }
+        boolean json = TabularFiles.isJson(name, text);
         for (String[] other : new String[][] {{PeakFiles.FORMAT, "a peak list (identify reads it)"},
             {SeriesFiles.FORMAT, "a Rydberg series (series reads it)"},
             {SpectrumFiles.FORMAT, "a spectrum (calibrate reads it)"},
             {CalibrationFiles.FORMAT, "a calibration (calibrate --apply reads it)"}}) {
-            if (text.stripLeading().startsWith("# " + other[0]) || TabularFiles.isJson(name, text)
-                    && text.contains("\"" + other[0] + "\"")) {
+            if (text.stripLeading().startsWith("# " + other[0]) || json && text.contains("\"" + other[0] + "\"")) {
                 throw new ReferenceDataException(ReferenceDataException.WRONG_KIND, name + ": this is a " + other[0]
                         + " file, " + other[1] + "; a data file is a line list, level table, quantum-defect set or"
                         + " isotope table");
             }
         }
-        boolean json = TabularFiles.isJson(name, text);
         if (!json && NuclearData.looksLikeIsotopes(text)) {
             NuclearData data = NuclearData.readUser(text, name);
             return new UserFile(data.table(), Optional.of(data));
