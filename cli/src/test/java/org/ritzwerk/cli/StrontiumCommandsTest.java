@@ -66,11 +66,11 @@ class StrontiumCommandsTest {
             }
         }
         assertTrue(limit, fit.out());
-        // 5s5p 3P1 - 5s40s 3S1 near 319 nm in the UV, a Ritz line of the level list
+        // 5s40s 3S1 - 5s5p 3P1 near 319 nm in the UV, a Ritz line of the level list
         CliTest.Run lines = CliTest.run("lines", "--species", "Sr I", "--from", "318 nm", "--to", "320 nm",
                 "--format", "csv");
         assertEquals(0, lines.code(), lines.err());
-        assertTrue(lines.out().contains("\"5s5p 3P1 - 5s.40s 3S1\""), lines.out());
+        assertTrue(lines.out().contains("\"5s.40s 3S1 - 5s5p 3P1\""), lines.out());
         assertTrue(!lines.out().contains("1S0\""), "no intercombination line from 5s5p 3P1 under the LS rules");
     }
 

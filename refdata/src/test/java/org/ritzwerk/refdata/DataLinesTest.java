@@ -39,7 +39,7 @@ class DataLinesTest {
         assertTrue(helium.withoutRate() > 0, helium.withoutRate() + " without A");
         int found = -1;
         for (int i = 0; i < helium.size(); i++) {
-            found = helium.label(i).equals("He I 1s2p 3P2 - 1s3d 3D3") ? i : found;
+            found = helium.label(i).equals("He I 1s3d 3D3 - 1s2p 3P2") ? i : found;
         }
         assertTrue(found >= 0, "587.6 nm 3D3 component");
         // Source: lines-he-i's A of 1s3d 3D3 - 1s2p 3P2, times g_u = 7 (the level's 2J + 1).

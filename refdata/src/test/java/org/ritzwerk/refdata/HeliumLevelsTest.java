@@ -61,25 +61,25 @@ class HeliumLevelsTest {
         // Ritz lines agree within 2 units of that last digit (the Ritz uncertainties are ~1e-6 nm; the
         // printed wavelengths' own uncertainty, not stated here, dominates)
         Object[][] published = {
-            {"1s2s 1S0 - 1s3p 1P1", 501.5678}, {"1s2p 1P1 - 1s3d 1D2", 667.8151}, {"1s2p 1P1 - 1s3s 1S0", 728.1349},
-            {"1s2p 1P1 - 1s4d 1D2", 492.1931}, {"1s2p 1P1 - 1s4s 1S0", 504.7738}, {"1s2s 1S0 - 1s4p 1P1", 396.4729},
-            {"1s2s 3S1 - 1s3p 3P2", 388.8648}};
+            {"1s3p 1P1 - 1s2s 1S0", 501.5678}, {"1s3d 1D2 - 1s2p 1P1", 667.8151}, {"1s3s 1S0 - 1s2p 1P1", 728.1349},
+            {"1s4d 1D2 - 1s2p 1P1", 492.1931}, {"1s4s 1S0 - 1s2p 1P1", 504.7738}, {"1s4p 1P1 - 1s2s 1S0", 396.4729},
+            {"1s3p 3P2 - 1s2s 3S1", 388.8648}};
         for (Object[] row : published) {
             Integer i = byName.get((String) row[0]);
             assertTrue(i != null, row[0] + " missing from " + byName.keySet());
             assertEquals((double) row[1], lines.wavelengthMetres(i, Medium.air()) * 1e9, 2e-4, (String) row[0]);
         }
         // by default the LS rules hold where both labels give a term, as in the lines command:
-        // 1s2 1S0 - 1s2p 1P1 (VUV) is there, the intercombination line 1s2 1S0 - 1s2p 3P1 is not
+        // 1s2p 1P1 - 1s2 1S0 (VUV) is there, the intercombination line 1s2p 3P1 - 1s2 1S0 is not
         LineQuery vuvWindow = LineQuery.defaults()
                 .withWindow(Wavelength.ofNanometres(50, Medium.vacuum()), Wavelength.ofNanometres(70, Medium.vacuum()));
         List<String> withLs = names(vuvWindow.run(DataLines.sources(context, List.of(HE), Tier.QED)));
-        assertTrue(withLs.contains("1s2 1S0 - 1s2p 1P1") && !withLs.contains("1s2 1S0 - 1s2p 3P1"), withLs.toString());
+        assertTrue(withLs.contains("1s2p 1P1 - 1s2 1S0") && !withLs.contains("1s2p 3P1 - 1s2 1S0"), withLs.toString());
         // the E1 rules alone keep it, and still refuse Delta J = 2 and parity-keeping pairs
         List<String> e1 = names(vuvWindow.run(LineSources.none().withLevels(DataLines.levels(context, HE),
                 DataLines.ritzLines(context, HE).withLsRules(false))));
-        assertTrue(e1.contains("1s2 1S0 - 1s2p 3P1") && e1.contains("1s2 1S0 - 1s2p 1P1"), e1.toString());
-        assertTrue(!e1.contains("1s2 1S0 - 1s2p 3P2") && !e1.contains("1s2 1S0 - 1s2s 3S1"), e1.toString());
+        assertTrue(e1.contains("1s2p 3P1 - 1s2 1S0") && e1.contains("1s2p 1P1 - 1s2 1S0"), e1.toString());
+        assertTrue(!e1.contains("1s2p 3P2 - 1s2 1S0") && !e1.contains("1s2s 3S1 - 1s2 1S0"), e1.toString());
     }
 
     private static List<String> names(LineSet lines) {

@@ -132,17 +132,17 @@ class HeliumPredictedLevelsTest {
             byName.put(lines.name(i), i);
         }
         Object[][] handbook = {
-            {438.7929, new Object[] {"1s2p 1P1 - 1s5d 1D2", 1}},
-            {443.7551, new Object[] {"1s2p 1P1 - 1s5s 1S0", 1}},
-            {414.3761, new Object[] {"1s2p 1P1 - 1s6d 1D2", 1}},
-            {416.8967, new Object[] {"1s2p 1P1 - 1s6s 1S0", 1}},
-            {361.3641, new Object[] {"1s2s 1S0 - 1s5p 1P1", 1}},
-            {294.5104, new Object[] {"1s2s 3S1 - 1s5p 3P2", 1}},
-            {412.0812, new Object[] {"1s2p 3P2 - 1s5s 3S1", 5, "1s2p 3P1 - 1s5s 3S1", 3}},
-            {402.6191, new Object[] {"1s2p 3P2 - 1s5d 3D3", 84, "1s2p 3P2 - 1s5d 3D2", 15, "1s2p 3P2 - 1s5d 3D1", 1,
-                "1s2p 3P1 - 1s5d 3D2", 45, "1s2p 3P1 - 1s5d 3D1", 15}},
-            {381.9607, new Object[] {"1s2p 3P2 - 1s6d 3D3", 84, "1s2p 3P2 - 1s6d 3D2", 15, "1s2p 3P2 - 1s6d 3D1", 1,
-                "1s2p 3P1 - 1s6d 3D2", 45, "1s2p 3P1 - 1s6d 3D1", 15}},
+            {438.7929, new Object[] {"1s5d 1D2 - 1s2p 1P1", 1}},
+            {443.7551, new Object[] {"1s5s 1S0 - 1s2p 1P1", 1}},
+            {414.3761, new Object[] {"1s6d 1D2 - 1s2p 1P1", 1}},
+            {416.8967, new Object[] {"1s6s 1S0 - 1s2p 1P1", 1}},
+            {361.3641, new Object[] {"1s5p 1P1 - 1s2s 1S0", 1}},
+            {294.5104, new Object[] {"1s5p 3P2 - 1s2s 3S1", 1}},
+            {412.0812, new Object[] {"1s5s 3S1 - 1s2p 3P2", 5, "1s5s 3S1 - 1s2p 3P1", 3}},
+            {402.6191, new Object[] {"1s5d 3D3 - 1s2p 3P2", 84, "1s5d 3D2 - 1s2p 3P2", 15, "1s5d 3D1 - 1s2p 3P2", 1,
+                "1s5d 3D2 - 1s2p 3P1", 45, "1s5d 3D1 - 1s2p 3P1", 15}},
+            {381.9607, new Object[] {"1s6d 3D3 - 1s2p 3P2", 84, "1s6d 3D2 - 1s2p 3P2", 15, "1s6d 3D1 - 1s2p 3P2", 1,
+                "1s6d 3D2 - 1s2p 3P1", 45, "1s6d 3D1 - 1s2p 3P1", 15}},
         };
         double rounding = 0.5e-4 / Math.sqrt(3);
         double sumPull2 = 0;
@@ -178,9 +178,9 @@ class HeliumPredictedLevelsTest {
                 .withWindow(Wavelength.ofNanometres(250, Medium.vacuum()), Wavelength.ofNanometres(390, Medium.vacuum()))
                 .run(DataLines.sources(DataContext.builtIn(), List.of(HE), Tier.QED));
         List<String> names = java.util.stream.IntStream.range(0, uv.size()).mapToObj(uv::name).toList();
-        assertTrue(names.contains("1s2p 1P1 - 1s10d 1D2") && names.contains("1s2p 1P1 - 1s10s 1S0")
-                && names.contains("1s2s 1S0 - 1s10p 1P1") && names.contains("1s2s 3S1 - 1s10p 3P2"), names.toString());
-        assertFalse(names.contains("1s2s 1S0 - 1s10s 1S0") || names.contains("1s2p 1P1 - 1s10p 1P1")
-                || names.contains("1s2s 1S0 - 1s10d 1D2"), names.toString());
+        assertTrue(names.contains("1s10d 1D2 - 1s2p 1P1") && names.contains("1s10s 1S0 - 1s2p 1P1")
+                && names.contains("1s10p 1P1 - 1s2s 1S0") && names.contains("1s10p 3P2 - 1s2s 3S1"), names.toString());
+        assertFalse(names.contains("1s10s 1S0 - 1s2s 1S0") || names.contains("1s10p 1P1 - 1s2p 1P1")
+                || names.contains("1s10d 1D2 - 1s2s 1S0"), names.toString());
     }
 }

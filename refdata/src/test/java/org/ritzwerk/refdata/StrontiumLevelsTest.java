@@ -122,22 +122,22 @@ class StrontiumLevelsTest {
             names.add(uv.name(i));
             assertEquals("ritz", uv.source(i).model());
         }
-        // 5s5p 3P1 - 5s30s 3S1 (near 319 nm) and 5s5p 1P1 - 5s30s 1S0 / 5s30d 1D2 (near 413 nm) are
-        // there; the intercombination line 5s5p 3P1 - 5s30s 1S0 is not, under the default LS rules
-        assertTrue(names.contains("5s5p 3P1 - 5s.30s 3S1"), names.toString());
-        assertTrue(names.contains("5s5p 1P1 - 5s.30s 1S0") && names.contains("5s5p 1P1 - 5s.30d 1D2"),
+        // 5s30s 3S1 - 5s5p 3P1 (near 319 nm) and 5s30s 1S0 - 5s5p 1P1 / 5s30d 1D2 (near 413 nm) are
+        // there; the intercombination line 5s30s 1S0 - 5s5p 3P1 is not, under the default LS rules
+        assertTrue(names.contains("5s.30s 3S1 - 5s5p 3P1"), names.toString());
+        assertTrue(names.contains("5s.30s 1S0 - 5s5p 1P1") && names.contains("5s.30d 1D2 - 5s5p 1P1"),
                 names.toString());
-        assertFalse(names.contains("5s5p 3P1 - 5s.30s 1S0"), "intercombination line under the LS rules");
-        int i = names.indexOf("5s5p 3P1 - 5s.30s 3S1");
+        assertFalse(names.contains("5s.30s 1S0 - 5s5p 3P1"), "intercombination line under the LS rules");
+        int i = names.indexOf("5s.30s 3S1 - 5s5p 3P1");
         double upper = energy(list, "5s.30s 3S1");
         double lower = energy(list, "5s5p 3P1");
         assertEquals(1 / ((upper - lower) * 100), uv.vacuumWavelengthMetres(i), 1e-15, "Ritz wavelength");
-        // 5s2 1S0 - 5snp 1P1 (VUV, near 218 nm): the ground level reaches the P series only
+        // 5snp 1P1 - 5s2 1S0 (VUV, near 218 nm): the ground level reaches the P series only
         LineSet vuv = LineQuery.defaults()
                 .withWindow(Wavelength.ofNanometres(200, Medium.vacuum()), Wavelength.ofNanometres(230, Medium.vacuum()))
                 .run(DataLines.sources(context, List.of(SR), Tier.QED));
         for (int k = 0; k < vuv.size(); k++) {
-            assertTrue(vuv.name(k).startsWith("5s2 1S0 - 5s.") && vuv.name(k).endsWith("p 1P1"), vuv.name(k));
+            assertTrue(vuv.name(k).startsWith("5s.") && vuv.name(k).endsWith("p 1P1 - 5s2 1S0"), vuv.name(k));
         }
         assertEquals(41, vuv.size(), "one line to each 5snp 1P1 member");
     }

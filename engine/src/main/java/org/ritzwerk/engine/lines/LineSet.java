@@ -288,7 +288,7 @@ public final class LineSet {
 
     /**
      * The lines that {@link RitzLines} computed from a species' levels: named by their two labels
-     * ({@code 1s2s 3S1 - 1s2p 3P2}, lower first), labelled, with the frequency {@code c sigma} (the
+     * ({@code 1s2p 3P2 - 1s2s 3S1}, upper first, as every other line's label), labelled, with the frequency {@code c sigma} (the
      * wavelength is {@code c / nu}), the vacuum wavelength's standard uncertainty
      * {@code u(sigma) / sigma^2} where the levels' uncertainties are known, A and f where given,
      * weights {@code 2J + 1} where J is known, the upper energy above the ground level, and n l j
@@ -308,7 +308,7 @@ public final class LineSet {
             int u = transitions.upper(i);
             int l = transitions.lower(i);
             double perCm = transitions.wavenumberPerCm(i);
-            b.addFrequency(levels.species(), from, levels.label(l) + " - " + levels.label(u),
+            b.addFrequency(levels.species(), from, levels.label(u) + " - " + levels.label(l),
                     perCm * 100 * PhysicalConstants.C)
                     .labels(levels.label(u), levels.label(l))
                     .upperEnergy(levels.energyPerCm(u) * hc);

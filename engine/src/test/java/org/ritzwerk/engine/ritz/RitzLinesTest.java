@@ -115,19 +115,19 @@ class RitzLinesTest {
         RitzTransitions lines = RitzLines.defaults().compute(levels);
         Set<String> got = new HashSet<>();
         for (int i = 0; i < lines.size(); i++) {
-            got.add(levels.label(lines.lower(i)) + " - " + levels.label(lines.upper(i)));
+            got.add(levels.label(lines.upper(i)) + " - " + levels.label(lines.lower(i)));
         }
-        assertEquals(Set.of("5s2 1S0 - 5s5p 3P1", "5s2 1S0 - 5s5p 1P1", "5s5p 3P1 - 5s6s 1S0", "5s5p 1P1 - 5s6s 1S0"),
+        assertEquals(Set.of("5s5p 3P1 - 5s2 1S0", "5s5p 1P1 - 5s2 1S0", "5s6s 1S0 - 5s5p 3P1", "5s6s 1S0 - 5s5p 1P1"),
                 got, "3P0 - 6s 1S0 is J 0 - 0");
-        assertFalse(got.contains("5s2 1S0 - 5s6s 1S0"));
-        assertFalse(got.contains("5s2 1S0 - 5s5p 3P0"));
+        assertFalse(got.contains("5s6s 1S0 - 5s2 1S0"));
+        assertFalse(got.contains("5s5p 3P0 - 5s2 1S0"));
         // LS rules drop the intercombination lines
         RitzTransitions ls = RitzLines.defaults().withLsRules(true).compute(levels);
         Set<String> kept = new HashSet<>();
         for (int i = 0; i < ls.size(); i++) {
-            kept.add(levels.label(ls.lower(i)) + " - " + levels.label(ls.upper(i)));
+            kept.add(levels.label(ls.upper(i)) + " - " + levels.label(ls.lower(i)));
         }
-        assertEquals(Set.of("5s2 1S0 - 5s5p 1P1", "5s5p 1P1 - 5s6s 1S0"), kept);
+        assertEquals(Set.of("5s5p 1P1 - 5s2 1S0", "5s6s 1S0 - 5s5p 1P1"), kept);
     }
 
     @Test
@@ -190,7 +190,7 @@ class RitzLinesTest {
                 .build();
         LineSet all = LineQuery.defaults().run(LineSources.none().withLevelList(list));
         assertEquals(2, all.size());
-        assertEquals("5s2 1S0 - 5s5p 1P1", all.name(0), "by falling frequency");
+        assertEquals("5s5p 1P1 - 5s2 1S0", all.name(0), "by falling frequency");
         assertEquals("ritz", all.source(0).model());
         assertEquals("test-sr-levels", all.source(0).dataSet().orElseThrow().id());
         assertEquals(1e7 / 21698.5, all.vacuumWavelengthNm(0), 1e-9);
@@ -202,6 +202,6 @@ class RitzLinesTest {
                 .withWindow(Wavelength.ofNanometres(600, Medium.air()), Wavelength.ofNanometres(700, Medium.air()))
                 .run(LineSources.none().withLevelList(list));
         assertEquals(1, window.size());
-        assertEquals("5s2 1S0 - 5s5p 3P1", window.name(0));
+        assertEquals("5s5p 3P1 - 5s2 1S0", window.name(0));
     }
 }
