@@ -137,6 +137,7 @@ final class SeriesCommand implements Callable<Integer> {
             throw new RitzException(e.code(), file + ": " + e.getMessage());
         }
         checkPredictions(fit);
+        noteKnownLimit(fit);
         print(fit, contents);
         if (plot != null) {
             try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
@@ -185,6 +186,17 @@ final class SeriesCommand implements Callable<Integer> {
                             + " there, where it usually fails", n, one.name(), lowest));
                 }
             }
+        }
+    }
+
+    /** Notes a known limit that the members put elsewhere (residual beyond 3 of its uncertainties). */
+    private void noteKnownLimit(SeriesFit fit) {
+        double r = fit.knownLimitResidualSigma().orElse(0);
+        if (Math.abs(r) > 3) {
+            spec.commandLine().getErr().println(String.format(java.util.Locale.ROOT, "note: --limit %s: the fitted "
+                    + "limit %.6f cm-1 lies %.1f of its standard uncertainties from it; the members put the limit "
+                    + "elsewhere, so check the limit, its uncertainty and the members' n (the fit without --limit "
+                    + "shows where)", limitText(), fit.limitPerCm(), r));
         }
     }
 

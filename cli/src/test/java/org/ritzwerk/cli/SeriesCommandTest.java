@@ -1,6 +1,7 @@
 package org.ritzwerk.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
@@ -114,6 +115,14 @@ class SeriesCommandTest {
         double loose = limitFrom(CliTest.run("series", file.toString(), "--format", "json", "--limit",
                 (LIMIT + 0.001) + ",1"));
         assertEquals(LIMIT, loose, 1e-6);
+        // neither is noted; a limit 0.01 cm-1 off with 0.001 uncertainty is (the members hold the fit
+        // within 7e-5 cm-1 of their own limit, 9.9 of the known limit's uncertainties away)
+        assertFalse(CliTest.run("series", file.toString(), "--limit", (LIMIT + 0.001) + ",1e-5").err()
+                .contains("note: --limit"));
+        CliTest.Run off = CliTest.run("series", file.toString(), "--limit", (LIMIT + 0.01) + ",0.001");
+        assertEquals(0, off.code(), off.err());
+        assertTrue(off.err().contains("lies -9.9 of its standard uncertainties from it; the members put the limit"
+                + " elsewhere"), off.err());
         CliTest.Run text = CliTest.run("series", file.toString(), "--limit", "33690.8,0.01");
         assertEquals(0, text.code(), text.err());
         assertTrue(text.out().contains("Known limit 33690.8 +- 0.01 cm-1 taken as a datum"), text.out());

@@ -3,6 +3,7 @@ package org.ritzwerk.engine.ritz;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.OptionalDouble;
 
 /**
  * The result of a {@link SeriesFitter}: the series limit and each series' quantum-defect
@@ -70,6 +71,19 @@ public final class SeriesFit {
     /** @return the limit's standard uncertainty, cm^-1 */
     public double limitUncertaintyPerCm() {
         return Math.sqrt(covariance[0][0]);
+    }
+
+    /**
+     * The known limit's residual in its own standard uncertainty, {@code (E_limit - L) / u_L}, where
+     * the fit was given one ({@link SeriesFitter#withLimit}). The fitted limit is drawn towards L, so
+     * a residual beyond about 3 means the members alone put the limit elsewhere: the known limit, its
+     * uncertainty or the members' assignment is wrong.
+     *
+     * @return the normalised residual, or empty without a known limit
+     */
+    public OptionalDouble knownLimitResidualSigma() {
+        double[] known = model.knownLimit;
+        return known == null ? OptionalDouble.empty() : OptionalDouble.of((limitPerCm() - known[0]) / known[1]);
     }
 
     /**

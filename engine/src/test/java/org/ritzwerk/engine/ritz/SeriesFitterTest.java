@@ -137,16 +137,29 @@ class SeriesFitterTest {
         List<Double> truth = List.of(0.1397, 0.028);
         int trials = 300;
         int[] within = new int[2];
+        int noted = 0;
         for (int t = 0; t < trials; t++) {
             double known = LIMIT + 0.01 * r.nextGaussian();
-            SeriesFit fit = SeriesFitter.defaults().withTerms(2).withLimit(known, 0.01)
-                    .fit(R, List.of(synthetic("1S", r, truth, 5, 20, 0.02)));
+            RydbergSeries members = synthetic("1S", r, truth, 5, 20, 0.02);
+            SeriesFit fit = SeriesFitter.defaults().withTerms(2).withLimit(known, 0.01).fit(R, List.of(members));
             within[0] += Math.abs(fit.limitPerCm() - LIMIT) <= 1.96 * fit.limitUncertaintyPerCm() ? 1 : 0;
             within[1] += Math.abs(fit.defects(0)[0] - truth.get(0)) <= 1.96 * fit.defectUncertainties(0)[0] ? 1 : 0;
             assertEquals(16 + 1 - 3, fit.degreesOfFreedom());
+            noted += Math.abs(fit.knownLimitResidualSigma().orElseThrow()) > 3 ? 1 : 0;
+            if (t == 0) {
+                assertTrue(SeriesFitter.defaults().withTerms(2).fit(R, List.of(members)).knownLimitResidualSigma()
+                        .isEmpty(), "no known limit, no residual");
+                // the same members with a limit 30 of its uncertainties off: the members hold the fit
+                double far = SeriesFitter.defaults().withTerms(2).withLimit(known + 0.3, 0.01).fit(R, List.of(members))
+                        .knownLimitResidualSigma().orElseThrow();
+                assertTrue(far < -3, "a limit the members contradict: " + far);
+            }
         }
         assertEquals(0.95, within[0] / (double) trials, 0.04, "limit coverage");
         assertEquals(0.95, within[1] / (double) trials, 0.04, "d0 coverage");
+        // a known limit consistent with the members is rarely beyond 3 of its uncertainties (at most the
+        // normal 0.27 %, fewer since the fit is drawn towards it)
+        assertTrue(noted <= 3, "consistent limits beyond 3 sigma: " + noted + " of " + trials);
     }
     @Test
     void theCovarianceKeepsItsDigitsWhenUncertaintiesDifferByOrders() {
