@@ -2,7 +2,9 @@ package org.ritzwerk.cli;
 
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.medium.Medium;
+import org.ritzwerk.quantity.QuantityParseException;
 import org.ritzwerk.quantity.QuantityText;
+import org.ritzwerk.quantity.SpectralQuantity;
 
 /** The --medium option of the commands that print or draw wavelengths: vacuum or standard air. */
 final class AxisMedium {
@@ -32,12 +34,28 @@ final class AxisMedium {
     }
 
     /**
-     * @param quantity a --from or --to value in any spectral unit, e.g. "656 nm air" or "15000 cm-1"
+     * @param option   the option's name, e.g. "--from", for the message
+     * @param quantity its value in any spectral unit, e.g. "656 nm air" or "15000 cm-1"
+     * @return the quantity
+     * @throws OptionException naming the option when the value cannot be read
+     */
+    static SpectralQuantity spectral(String option, String quantity) {
+        try {
+            return QuantityText.standard().parseSpectral(quantity);
+        } catch (QuantityParseException e) {
+            throw new OptionException(option + ": " + e.getMessage());
+        }
+    }
+
+    /**
+     * @param option   the option's name, e.g. "--from", for the message
+     * @param quantity its value in any spectral unit, e.g. "656 nm air" or "15000 cm-1"
      * @param medium   the medium of the wavelength wanted
      * @return the wavelength in nm in that medium
+     * @throws OptionException naming the option when the value cannot be read
      */
-    static double nanometres(String quantity, Medium medium) {
-        double hertz = QuantityText.standard().parseSpectral(quantity).toFrequency().inHertz();
+    static double nanometres(String option, String quantity, Medium medium) {
+        double hertz = spectral(option, quantity).toFrequency().inHertz();
         return medium.fromVacuum(PhysicalConstants.C / hertz) * 1e9;
     }
 }

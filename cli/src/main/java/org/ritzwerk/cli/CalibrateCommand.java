@@ -291,8 +291,10 @@ final class CalibrateCommand implements Callable<Integer> {
             double a;
             double b;
             try {
-                a = AxisMedium.nanometres(from, m);
-                b = AxisMedium.nanometres(to, m);
+                a = AxisMedium.nanometres("--from", from, m);
+                b = AxisMedium.nanometres("--to", to, m);
+            } catch (OptionException e) {
+                throw new OptionException(e.getMessage() + "; give the wavelength range the detector may see", e);
             } catch (IllegalArgumentException | org.ritzwerk.RitzwerkException e) {
                 throw new OptionException("--from/--to (" + from + " to " + to + "): " + e.getMessage()
                         + "; give the wavelength range the detector may see", e);

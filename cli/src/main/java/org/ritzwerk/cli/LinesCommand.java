@@ -9,7 +9,6 @@ import org.ritzwerk.engine.lines.LineQuery;
 import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.lines.LineSources;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
-import org.ritzwerk.quantity.QuantityText;
 import org.ritzwerk.quantity.SpectralQuantity;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -144,8 +143,8 @@ final class LinesCommand implements Callable<Integer> {
         if (lMax < 0 || lMax > 50) {
             throw new OptionException("--l-max must be 0 to 50, got " + lMax);
         }
-        SpectralQuantity one = QuantityText.standard().parseSpectral(from);
-        SpectralQuantity two = QuantityText.standard().parseSpectral(to);
+        SpectralQuantity one = AxisMedium.spectral("--from", from);
+        SpectralQuantity two = AxisMedium.spectral("--to", to);
         if (one.toFrequency().inHertz() == two.toFrequency().inHertz()) {
             throw new OptionException("--from and --to are the same position; give a window");
         }

@@ -456,8 +456,8 @@ final class SynthCommand implements Callable<Integer> {
         if (from == null || to == null) {
             throw new OptionException("give --from and --to (or --dispersion)");
         }
-        double oneEnd = AxisMedium.nanometres(from, axisMedium);
-        double otherEnd = AxisMedium.nanometres(to, axisMedium);
+        double oneEnd = AxisMedium.nanometres("--from", from, axisMedium);
+        double otherEnd = AxisMedium.nanometres("--to", to, axisMedium);
         double lo = Math.min(oneEnd, otherEnd);
         double hi = Math.max(oneEnd, otherEnd);
         if (!(hi > lo)) {

@@ -54,6 +54,21 @@ class InputErrorsTest {
     }
 
     @Test
+    void aQuantityOptionThatCannotBeReadIsNamed(@TempDir Path dir) {
+        // before: "cannot read "300" (column 4): no unit ...", naming neither the option nor which end
+        CliTest.Run lines = CliTest.run("lines", "--species", "H I", "--from", "300", "--to", "700 nm");
+        assertEquals(2, lines.code());
+        assertTrue(lines.err().startsWith("ritzwerk lines: --from: cannot read \"300\""), lines.err());
+        CliTest.Run synth = CliTest.run("synth", "--species", "H I", "--from", "300 nm", "--to", "900",
+                "--temperature", "3000", "--out", dir.resolve("s.csv").toString());
+        assertEquals(2, synth.code());
+        assertTrue(synth.err().startsWith("ritzwerk synth: --to: cannot read \"900\""), synth.err());
+        CliTest.Run kelvin = CliTest.run("lines", "--species", "H I", "--from", "300 nm", "--to", "3 K");
+        assertTrue(kelvin.err().contains("--to: cannot read \"3 K\"") && kelvin.err().contains("temperature"),
+                kelvin.err());
+    }
+
+    @Test
     void aFullDeviceIsAnInputErrorWithoutAStackTrace(@TempDir Path dir) {
         Path full = Path.of("/dev/full");
         org.junit.jupiter.api.Assumptions.assumeTrue(Files.exists(full) && !Files.isRegularFile(full),
