@@ -97,7 +97,11 @@ public final class StarkMap {
 
     /**
      * The usual n range of a map around one state: its own n and its nearest hydrogenic
-     * manifold, round(n*), and one more n on each side.
+     * manifold, round(n*), and one more n on each side; widened so that every state whose
+     * effective principal number lies within 1 of the state's own is in the basis, whatever its
+     * quantum defect. The upper end takes the largest defect, the s series' (Rb 50d5/2, n* = 48.65,
+     * is coupled most strongly to 52p3/2, n* = 49.36: n from 48 to 52, where n from 48 to 51 gave
+     * polarisabilities a factor 2.6 off and of the wrong sign at some m_j).
      *
      * @param atom  the atom
      * @param state the state the map is about
@@ -105,8 +109,15 @@ public final class StarkMap {
      * @throws RydbergException when the atom has no energy for the state
      */
     public static int[] principalRangeAround(AlkaliAtom atom, State state) {
-        int nearest = (int) Math.round(atom.level(state).effectiveN());
-        return new int[] {Math.max(1, Math.min(state.n(), nearest) - 1), Math.max(state.n(), nearest) + 1};
+        double nStar = atom.level(state).effectiveN();
+        int nearest = (int) Math.round(nStar);
+        int low = Math.max(1, Math.min(Math.min(state.n(), nearest) - 1, (int) Math.ceil(nStar - 1)));
+        int high = Math.max(state.n(), nearest) + 1;
+        // the s series has the largest defect; its members up to n* + 1 are in the basis
+        int probe = Math.max(state.n(), nearest) + 4;
+        double sDefect = probe - atom.level(State.of(probe, 0, 1)).effectiveN();
+        high = Math.max(high, (int) Math.floor(nStar + 1 + Math.max(0, sDefect)));
+        return new int[] {low, high};
     }
 
     /**
@@ -142,9 +153,10 @@ public final class StarkMap {
         }
 
         /**
-         * The usual basis for a map around one state: its own n and its nearest hydrogenic
-         * manifold, round(n*), and one more n on each side (for Rb 50S, n* = 46.9, the n = 47
-         * manifold lies below n - 2, so it must be taken in).
+         * The usual basis for a map around one state ({@link StarkMap#principalRangeAround}): its
+         * own n and its nearest hydrogenic manifold, round(n*), and one more n on each side (for Rb
+         * 50S, n* = 46.9, the n = 47 manifold lies below n - 2, so it must be taken in), and every
+         * state within 1 of its n*.
          *
          * @param state the state the map is about
          * @return this builder, with that n range

@@ -45,8 +45,37 @@ class StarkMapTest {
         // n = 47 manifold, below n - 2, must be in the basis, with one more n on each side.
         assertTrue(Math.abs(RB.level(State.of(50, 0, 1)).effectiveN() - 46.87) < 0.05);
         assertTrue(Arrays.equals(new int[] {46, 51}, StarkMap.principalRangeAround(RB, State.of(50, 0, 1))));
-        // A high-l state has n* = n: its own n and one on each side.
-        assertTrue(Arrays.equals(new int[] {39, 41}, StarkMap.principalRangeAround(RB, State.of(40, 5, 11))));
+        // Rb 50d5/2 (n* = 48.65) reaches up to n = 52, whose 52p3/2 (n* = 49.36) is its strongest
+        // neighbour; n = 48 to 51 left that state out.
+        assertTrue(Arrays.equals(new int[] {48, 52}, StarkMap.principalRangeAround(RB, State.of(50, 2, 5))));
+        // A high-l state has n* = n: its own n and one below; above, up to the s states within 1
+        // of its n* (44s, n* = 40.87).
+        assertTrue(Arrays.equals(new int[] {39, 44}, StarkMap.principalRangeAround(RB, State.of(40, 5, 11))));
+    }
+
+    /**
+     * The usual basis gives the weak-field shift of the polarizability (an independent sum over
+     * dipole couplings, {@link PolarizabilityCalculator}) at every m_j, for states whose strongest
+     * neighbour lies above round(n*) + 1, within 1 % of the polarizability's size. Rb 50d5/2 at
+     * m_j = 1/2, 3/2, 5/2 was -110, -3 and +213 MHz/(V/cm)^2 with n = 48 to 51, where the sum gives
+     * -42, +43 and +213 (an error of a third of the size).
+     */
+    @Test
+    void theUsualBasisGivesThePolarizabilityAtEveryProjection() {
+        double field = 0.1; // V/m
+        for (State s : new State[] {State.of(50, 2, 5), State.of(50, 2, 3), State.of(60, 2, 5), State.of(50, 1, 3),
+            State.of(50, 0, 1)}) {
+            Polarizability alpha = PolarizabilityCalculator.of(RB).compute(s);
+            for (int twoMj = 1; twoMj <= s.twoJ(); twoMj += 2) {
+                StarkMap map = StarkMap.builder(RB).projection(twoMj).principalRangeAround(s).build();
+                double shift = map.solve(new double[] {field}, s).referenceShiftHz(0);
+                double expected = alpha.shiftHz(twoMj, field);
+                // within 1 % of the polarizability's size (alpha_0 and alpha_2 nearly cancel at some m_j)
+                double scale = 0.5 * (Math.abs(alpha.scalarMHzPerVPerCmSquared())
+                        + Math.abs(alpha.tensorMHzPerVPerCmSquared())) * 1e6 * Math.pow(field / 100, 2);
+                assertEquals(expected, shift, 0.01 * scale, s.label() + " m_j = " + twoMj + "/2");
+            }
+        }
     }
 
     @Test
