@@ -5,6 +5,7 @@ import org.ritzwerk.quantity.Energy;
 import java.util.Objects;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Nucleus;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.internal.radial.RadialIntegrals;
 
@@ -100,6 +101,24 @@ public final class HydrogenLikeModel {
     /** @return the nucleus */
     public Nucleus nucleus() {
         return nucleus;
+    }
+
+    /**
+     * Checks that a species is the one-electron ion of this model's nucleus, as every job that
+     * takes a species beside its model does.
+     *
+     * @param species the species a caller pairs with this model
+     * @return the species
+     * @throws IllegalArgumentException when it is not the one-electron ion of this nucleus
+     *                                  (H I with a helium model, He II with a hydrogen model)
+     */
+    public Species requireIon(Species species) {
+        Objects.requireNonNull(species, "species");
+        if (!species.isHydrogenLike() || species.z() != nucleus.z()) {
+            throw new IllegalArgumentException(species.notation() + " is not the one-electron ion of the model's "
+                    + "nucleus (Z = " + nucleus.z() + ")");
+        }
+        return species;
     }
 
     /** @return the tier */

@@ -128,10 +128,11 @@ public final class Candidates {
          *                   one may explain several peaks that lie within that span plus the
          *                   tolerance of one another)
          * @return this builder
+         * @throws IllegalArgumentException when the species is not the one-electron ion of the
+         *                                  model's nucleus
          */
         public Builder hydrogenLike(Species species, HydrogenLikeModel model, int nMax, boolean components) {
-            Objects.requireNonNull(species, "species");
-            Objects.requireNonNull(model, "model");
+            Objects.requireNonNull(model, "model").requireIon(species);
             sources.add(b -> {
                 HydrogenLikeLines generator = HydrogenLikeLines.of(model);
                 double fromHz = PhysicalConstants.C / hi;

@@ -25,13 +25,14 @@ public final class PeakList {
     /**
      * @param positions   peak positions in {@code unit} (and {@code medium} for wavelengths)
      * @param sigmas      their standard uncertainties in the same unit, or null when unknown
-     *                    (then 0; use an absolute or relative tolerance)
-     * @param intensities observed intensities (any relative unit), or null
+     *                    (then 0; use an absolute or relative tolerance); NaN marks one peak's as
+     *                    unknown, as the peak-file readers give it
+     * @param intensities observed intensities (any relative unit), or null; NaN where unknown
      * @param unit        the unit of the positions: wavelength, wavenumber, frequency or energy
      * @param medium      the medium of wavelength positions; ignored for other units
      * @return the peaks, converted to vacuum wavelength
      * @throws IllegalArgumentException naming the first bad element (non-finite or non-positive
-     *                                  position, negative or non-finite uncertainty or intensity),
+     *                                  position, negative or infinite uncertainty or intensity),
      *                                  for mismatched lengths or an empty list
      */
     public static PeakList of(double[] positions, double[] sigmas, double[] intensities, Unit unit, Medium medium) {
@@ -69,6 +70,9 @@ public final class PeakList {
             }
             for (int i = 0; i < n; i++) {
                 double u = sigmas[i];
+                if (Double.isNaN(u)) {
+                    continue; // not given: 0, as for a list without uncertainties
+                }
                 if (!(u >= 0) || Double.isInfinite(u)) {
                     throw new IllegalArgumentException("peak " + i + ": uncertainty must be finite and >= 0, got " + u);
                 }
@@ -89,7 +93,7 @@ public final class PeakList {
             Arrays.fill(intensity, Double.NaN);
         } else {
             for (int i = 0; i < n; i++) {
-                if (!(intensities[i] >= 0) || Double.isInfinite(intensities[i])) {
+                if (!Double.isNaN(intensities[i]) && (!(intensities[i] >= 0) || Double.isInfinite(intensities[i]))) {
                     throw new IllegalArgumentException("peak " + i + ": intensity must be finite and >= 0, got "
                             + intensities[i]);
                 }

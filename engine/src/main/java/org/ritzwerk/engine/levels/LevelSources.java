@@ -47,11 +47,7 @@ public final class LevelSources {
      * @throws IllegalArgumentException when the species is not the one-electron ion of the model's nucleus
      */
     public LevelSources withHydrogenLike(Species species, HydrogenLikeModel model) {
-        Objects.requireNonNull(model, "model");
-        if (!species.isHydrogenLike() || species.z() != model.nucleus().z()) {
-            throw new IllegalArgumentException(species.notation() + " is not the one-electron ion of the model's"
-                    + " nucleus (Z = " + model.nucleus().z() + ")");
-        }
+        Objects.requireNonNull(model, "model").requireIon(species);
         return with(new Entry(species, model, null, null, null));
     }
 

@@ -13,6 +13,7 @@ import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.identify.Candidates;
 import org.ritzwerk.engine.identify.Identification;
+import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.engine.identify.LineCatalog;
 import org.ritzwerk.engine.profile.BalmerStark;
 import org.ritzwerk.engine.profile.Broadening;
@@ -163,8 +164,26 @@ public final class PlasmaEstimate {
      * @param candidates     the candidates the catalog came from, for the multiplets' physics
      * @return the temperature rows (one per species with matched multiplets), then the density rows
      *         (one per matched Balmer-alpha or -beta peak of H or D); empty when nothing matched
+     * @throws IllegalArgumentException when the peaks are not the identification's, peak for peak
+     *                                  (another count, or a position elsewhere)
      */
     public List<Row> estimate(Peaks peaks, Identification identification, LineCatalog lines, Candidates candidates) {
+        Objects.requireNonNull(peaks, "peaks");
+        Objects.requireNonNull(identification, "identification");
+        Objects.requireNonNull(lines, "lines");
+        Objects.requireNonNull(candidates, "candidates");
+        PeakList identified = identification.peaks();
+        if (peaks.positions().length != identified.size()) {
+            throw new IllegalArgumentException("the identification has " + identified.size() + " peaks, the plasma "
+                    + "estimate was given " + peaks.positions().length + "; give it the peaks that were identified");
+        }
+        PeakList given = PeakList.of(peaks.positions(), null, null, peaks.unit(), peaks.medium());
+        for (int i = 0; i < identified.size(); i++) {
+            if (Math.abs(given.wavelength(i) - identified.wavelength(i)) > 1e-9 * identified.wavelength(i)) {
+                throw new IllegalArgumentException("peak " + i + " lies elsewhere than the identification's peak " + i
+                        + "; give the peaks in the order they were identified");
+            }
+        }
         Map<Species, List<int[]>> bySpecies = new LinkedHashMap<>();
         for (int i = 0; i < peaks.positions().length; i++) {
             int j = identification.line(i);

@@ -349,11 +349,8 @@ public final class Scene {
          * @return this builder
          */
         public Builder hydrogenLike(Species species, HydrogenLikeModel model, double abundance) {
+            Objects.requireNonNull(model, "model").requireIon(species);
             positive("abundance of " + species.notation(), abundance);
-            if (species.z() != model.nucleus().z() || !species.isHydrogenLike()) {
-                throw new IllegalArgumentException(species.notation() + " is not the one-electron ion of the model's "
-                        + "nucleus (Z = " + model.nucleus().z() + ")");
-            }
             ions.add(new HydrogenLikeEmitter(species, model, abundance));
             return this;
         }

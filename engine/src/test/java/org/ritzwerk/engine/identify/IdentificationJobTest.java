@@ -102,6 +102,36 @@ class IdentificationJobTest {
         assertEquals(PlasmaEstimate.Quantity.EXCITATION_TEMPERATURE, none.quantity());
         assertTrue(none.value().isEmpty() && none.uncertainty().isEmpty());
         assertTrue(none.note().startsWith("the Boltzmann plot rises"), none.note());
+
+        // Peaks that are not the identification's were paired silently with its lines (or failed
+        // with an index out of bounds): another count, or the same peaks in another order, is refused.
+        double[] one = {nm[0]};
+        IllegalArgumentException fewer = assertThrows(IllegalArgumentException.class, () -> PlasmaEstimate.defaults()
+                .estimate(new PlasmaEstimate.Peaks(one, Unit.NANOMETRE, Medium.vacuum(), new double[1], new double[1]),
+                        report.identification(), report.lines(), found));
+        assertTrue(fewer.getMessage().contains("the identification has " + n + " peaks"), fewer.getMessage());
+        double[] swapped = nm.clone();
+        swapped[0] = nm[1];
+        swapped[1] = nm[0];
+        IllegalArgumentException order = assertThrows(IllegalArgumentException.class, () -> PlasmaEstimate.defaults()
+                .estimate(new PlasmaEstimate.Peaks(swapped, Unit.NANOMETRE, Medium.vacuum(), photons, width),
+                        report.identification(), report.lines(), found));
+        assertTrue(order.getMessage().startsWith("peak 0 lies elsewhere"), order.getMessage());
+    }
+
+    /** NaN marks one peak's uncertainty or intensity as not given, as the peak-file readers write it. */
+    @Test
+    void notGivenUncertaintiesAndIntensitiesAreNaN() {
+        PeakList peaks = PeakList.of(new double[] {500, 600, 700}, new double[] {0.01, Double.NaN, 0.02},
+                new double[] {Double.NaN, 5, 7}, Unit.NANOMETRE, Medium.vacuum());
+        assertEquals(0, peaks.sigma(1));
+        assertTrue(peaks.sigma(0) > 0 && peaks.sigma(2) > 0);
+        assertTrue(Double.isNaN(peaks.intensity(0)));
+        assertEquals(5, peaks.intensity(1));
+        assertThrows(IllegalArgumentException.class, () -> PeakList.of(new double[] {500}, new double[] {-1}, null,
+                Unit.NANOMETRE, Medium.vacuum()));
+        assertThrows(IllegalArgumentException.class, () -> PeakList.of(new double[] {500}, null,
+                new double[] {Double.POSITIVE_INFINITY}, Unit.NANOMETRE, Medium.vacuum()));
     }
 
     @Test
@@ -130,6 +160,11 @@ class IdentificationJobTest {
         assertTrue(none.getMessage().contains("no candidate line"), none.getMessage());
         assertEquals(IdentificationException.NO_CANDIDATES, none.code());
         assertThrows(IllegalArgumentException.class, () -> Candidates.inWindow(5e-7, 4e-7));
+        // a hydrogen model under another ion's name entered Balmer lines as He II
+        IllegalArgumentException heII = assertThrows(IllegalArgumentException.class,
+                () -> Candidates.inWindow(4e-7, 7e-7).hydrogenLike(Species.parse("He II"), model, 10, false));
+        assertTrue(heII.getMessage().contains("He II is not the one-electron ion of the model's nucleus (Z = 1)"),
+                heII.getMessage());
         assertThrows(IllegalArgumentException.class, () -> Candidates.inWindow(4e-7, 5e-7).excitationTemperature(0));
         Candidates components = Candidates.inWindow(650e-9, 660e-9).hydrogenLike(H, model, 5, true).build();
         assertTrue(components.catalog().size() > 1, "H-alpha's fine-structure components");
