@@ -174,11 +174,10 @@ final class SeriesCommand implements Callable<Integer> {
                 lowest = Math.min(lowest, one.n(i));
             }
             for (int n : predict) {
-                SeriesFit.Member m = fit.predict(s, n);
-                if (!(n - m.quantumDefect() > 0) || !Double.isFinite(m.energyPerCm())) {
-                    throw new OptionException(String.format(java.util.Locale.ROOT, "--predict %d: series %s has no"
-                            + " member there (its fitted defect %.4f leaves no positive effective n)", n, one.name(),
-                            m.quantumDefect()));
+                try {
+                    fit.predict(s, n);
+                } catch (IllegalArgumentException e) {
+                    throw new OptionException("--predict " + n + ": " + e.getMessage());
                 }
                 if (n < lowest) {
                     spec.commandLine().getErr().println(String.format(java.util.Locale.ROOT, "note: --predict %d lies"

@@ -184,7 +184,8 @@ class SeriesCommandTest {
         Path good = example(dir);
         CliTest.Run none = CliTest.run("series", good.toString(), "--predict", "1,60");
         assertEquals(2, none.code());
-        assertTrue(none.out().isEmpty() && none.err().contains("--predict 1: series nS1/2 has no member there"),
+        assertTrue(none.out().isEmpty()
+                && none.err().contains("--predict 1: series nS1/2 has no member at n = 1: its fitted defect"),
                 none.out() + none.err());
         CliTest.Run low = CliTest.run("series", good.toString(), "--predict", "8");
         assertEquals(0, low.code(), low.err());

@@ -160,7 +160,7 @@ public final class SeriesFit {
      */
     public double residualPerCm(int s, int i) {
         RydbergSeries one = model.series.get(s);
-        return one.energyPerCm(i) - predict(s, one.n(i)).energyPerCm();
+        return one.energyPerCm(i) - member(s, one.n(i)).energyPerCm();
     }
 
     /**
@@ -180,8 +180,27 @@ public final class SeriesFit {
      * @param s series index
      * @param n principal quantum number (measured or not), above the series' d0
      * @return the member's energy, its uncertainty from the covariance, and delta(n)
+     * @throws IllegalArgumentException for a series index out of range, n below 1, or an n where the
+     *                                  fitted defect leaves no positive effective n (no member there)
      */
     public Member predict(int s, int n) {
+        if (s < 0 || s >= model.series.size()) {
+            throw new IllegalArgumentException("series index " + s + " out of range: the fit has "
+                    + model.series.size() + " series");
+        }
+        if (n < 1) {
+            throw new IllegalArgumentException("n must be at least 1, got " + n);
+        }
+        Member member = member(s, n);
+        if (!(n - member.quantumDefect() > 0) || !Double.isFinite(member.energyPerCm())) {
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "series %s has no member at n = %d:"
+                    + " its fitted defect %.4f leaves no positive effective n", model.series.get(s).name(), n,
+                    member.quantumDefect()));
+        }
+        return member;
+    }
+
+    private Member member(int s, int n) {
         double[] q = parameters;
         List<Double> c = SeriesFitter.Model.coefficients(q, first(s), terms[s]);
         double[] g = new double[terms[s]];

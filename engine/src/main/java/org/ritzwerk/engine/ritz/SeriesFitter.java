@@ -115,7 +115,10 @@ public final class SeriesFitter {
      * @param rydbergPerCm the species' reduced-mass Rydberg constant R_M, cm^-1, finite, positive
      * @param series       one or more series sharing the limit
      * @return the fit
-     * @throws RitzException when there are too few members or the fit does not converge
+     * @throws RitzException when there are too few members (or a series has none) or the fit does not
+     *                       converge
+     * @throws IllegalArgumentException for R_M not finite and positive, term counts that do not match
+     *                                  the series, or two series of one name
      */
     public SeriesFit fit(double rydbergPerCm, List<RydbergSeries> series) {
         Objects.requireNonNull(series, "series");
@@ -127,6 +130,16 @@ public final class SeriesFitter {
         }
         if (fixedTerms != null && fixedTerms.length != series.size()) {
             throw new IllegalArgumentException(fixedTerms.length + " term counts for " + series.size() + " series");
+        }
+        java.util.Set<String> names = new java.util.HashSet<>();
+        for (RydbergSeries one : series) {
+            if (!names.add(Objects.requireNonNull(one, "series").name())) {
+                throw new IllegalArgumentException("two series named '" + one.name() + "': the same members would "
+                        + "count twice; give each series once, under its own name");
+            }
+            if (one.size() == 0) {
+                throw new RitzException(RitzException.TOO_FEW, "series '" + one.name() + "' has no members");
+            }
         }
         int members = series.stream().mapToInt(RydbergSeries::size).sum();
         int total = members + (knownLimit == null ? 0 : 1);

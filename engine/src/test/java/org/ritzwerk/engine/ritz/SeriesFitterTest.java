@@ -129,6 +129,28 @@ class SeriesFitterTest {
         assertThrows(IllegalArgumentException.class, () -> SeriesFitter.defaults().withLimit(Double.NaN, 1));
     }
 
+    /**
+     * Predictions where the series has no member, or of a series the fit does not hold, are refused
+     * (they returned energies below zero, or an index out of bounds); so are a series given twice
+     * and an empty one.
+     */
+    @Test
+    void predictionsAndSeriesThatDoNotExistAreRefused() {
+        RydbergSeries s = synthetic("nS", new Random(7), List.of(3.1311807, 0.1787), 20, 40, 1e-3);
+        SeriesFit fit = SeriesFitter.defaults().fit(R, List.of(s));
+        assertTrue(fit.predict(0, 5).energyPerCm() > 0);
+        IllegalArgumentException low = assertThrows(IllegalArgumentException.class, () -> fit.predict(0, 2));
+        assertTrue(low.getMessage().startsWith("series nS has no member at n = 2"), low.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> fit.predict(0, 0));
+        assertThrows(IllegalArgumentException.class, () -> fit.predict(0, -5));
+        assertTrue(assertThrows(IllegalArgumentException.class, () -> fit.predict(5, 60)).getMessage()
+                .contains("the fit has 1 series"));
+        assertTrue(assertThrows(IllegalArgumentException.class, () -> SeriesFitter.defaults().fit(R, List.of(s, s)))
+                .getMessage().contains("two series named 'nS'"));
+        assertEquals(RitzException.TOO_FEW, assertThrows(RitzException.class, () -> SeriesFitter.defaults()
+                .fit(R, List.of(s, RydbergSeries.builder("nP").build()))).code());
+    }
+
     @Test
     void aKnownLimitWithNoisyMembersKeepsCoverage() {
         // members n = 5..20 with noise and a limit known to 0.01 cm^-1: the fitted limit and d0 lie within
