@@ -184,13 +184,15 @@ public final class PeakFinder {
 
     /**
      * @param counts the detector's saturation level in counts (pixels at or above it are
-     *               saturated); finite, or positive infinity for none
+     *               saturated); above 0, or positive infinity for none
      * @return a copy with that level
+     * @throws IllegalArgumentException for NaN or a level at or below 0 (every pixel would be
+     *                                  saturated)
      */
     public PeakFinder withSaturationLevel(double counts) {
-        if (Double.isNaN(counts) || counts == Double.NEGATIVE_INFINITY) {
-            throw new IllegalArgumentException("saturation level must be a number of counts or +infinity, got "
-                    + counts);
+        if (!(counts > 0)) {
+            throw new IllegalArgumentException("saturation level must be above 0 counts, or +infinity for none, got "
+                    + counts + " (every pixel would be saturated)");
         }
         return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, counts, negativeAllowed);
     }

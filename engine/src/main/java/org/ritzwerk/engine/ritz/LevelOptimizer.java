@@ -73,10 +73,15 @@ public final class LevelOptimizer {
     /**
      * @param problem the measured lines and the reference level
      * @return the optimised levels, their covariance and every line's Ritz wavenumber and flag
-     * @throws RitzException ({@link RitzException#UNCONNECTED}) naming the levels not connected to the reference
+     * @throws RitzException ({@link RitzException#UNCONNECTED}) naming the levels not connected to the reference;
+     *                       ({@link RitzException#TOO_FEW}) for a problem without lines
      */
     public LevelOptimum optimize(MeasuredLines problem) {
         Objects.requireNonNull(problem, "problem");
+        if (problem.size() == 0) {
+            throw new RitzException(RitzException.TOO_FEW, "no measured lines: the levels need at least one line "
+                    + "joining them to the reference level");
+        }
         int levels = problem.levels().size();
         int lines = problem.size();
         checkConnected(problem);

@@ -107,6 +107,10 @@ class CalibratorTest {
         assertEquals(60_000, c.saturationLevel());
         assertEquals(-1, c.withAutomaticDegree(4).degree());
         assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withTolerance(0));
+        // a level at or below 0 saturates every pixel; it used to end in "found 0 peaks"
+        for (double level : new double[] {0, -1, Double.NaN, Double.NEGATIVE_INFINITY}) {
+            assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withSaturationLevel(level));
+        }
         assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withDegree(0));
         assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withMinMatchedFraction(1.5));
         assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withThreshold(Double.NaN));

@@ -51,6 +51,10 @@ class LevelOptimizerTest {
         for (int k = 0; k < PAIRS.length; k++) {
             assertTrue(fit.ritzUncertaintyPerCm(k) <= SIGMA[k] * (1 + 1e-12));
         }
+        // no lines at all: the library's own refusal, not a linear-algebra exception from inside
+        RitzException none = assertThrows(RitzException.class,
+                () -> LevelOptimizer.defaults().optimize(MeasuredLines.builder("a", 0).build()));
+        assertEquals(RitzException.TOO_FEW, none.code());
     }
 
     @Test
