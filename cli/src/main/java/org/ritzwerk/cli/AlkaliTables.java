@@ -124,7 +124,12 @@ final class AlkaliTables {
 
     /** The ladder table: the two steps' wavelengths. */
     static void ladder(AlkaliAtom atom, State[] states, PrintWriter out, Table.Format format) {
-        LadderExcitation ladder = atom.ladder(states[0], states[1], states[2]);
+        LadderExcitation ladder;
+        try {
+            ladder = atom.ladder(states[0], states[1], states[2]);
+        } catch (IllegalArgumentException e) {
+            throw new OptionException("--ladder: " + e.getMessage(), e);
+        }
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("step", "step"),

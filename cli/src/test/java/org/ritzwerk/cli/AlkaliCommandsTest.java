@@ -156,6 +156,14 @@ class AlkaliCommandsTest {
                 .contains("--transition needs exactly one alkali atom"));
         assertTrue(CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2").err()
                 .contains("--ladder takes three states"));
+        // steps that are not electric-dipole lines were printed; states out of order were an internal error
+        for (String[] bad : new String[][] {{"5s1/2,5p1/2,50d5/2", "the step 5p 2P1/2 -> 50d 2D5/2 is not an"},
+            {"5s1/2,5p3/2,50p3/2", "the step 5p 2P3/2 -> 50p 2P3/2"}, {"5s1/2,5d5/2,50p3/2", "the step 5s 2S1/2 -> "},
+            {"5p3/2,5s1/2,6p3/2", "a ladder needs ascending energies"}, {"5s1/2,5p3/2,5p3/2", "is not an electric"}}) {
+            CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", bad[0]);
+            assertEquals(2, run.code(), bad[0] + ": " + run.err());
+            assertTrue(run.err().startsWith("ritzwerk lines: --ladder: ") && run.err().contains(bad[1]), run.err());
+        }
         assertTrue(CliTest.run("levels", "--species", "Fe I").err()
                 .contains("levels and lines cover one-electron ions"));
         assertTrue(CliTest.run("lines", "--species", "Rb-87 I").err().contains("give --from and --to"));

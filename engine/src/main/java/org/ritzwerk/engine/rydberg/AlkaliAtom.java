@@ -602,15 +602,24 @@ public final class AlkaliAtom {
      * @param intermediate the intermediate state, above {@code lower}
      * @param upper        the Rydberg state, above {@code intermediate}
      * @return the two resonant photon frequencies and wavelengths
-     * @throws IllegalArgumentException when the three are not in ascending energy
+     * @throws IllegalArgumentException when a step is not an electric-dipole line (Delta l = 1,
+     *                                  Delta j &lt;= 1) or the three are not in ascending energy
      * @throws RydbergException         when the model has no energy for one of them
      */
     public LadderExcitation ladder(State lower, State intermediate, State upper) {
+        State[][] steps = {{lower, intermediate}, {intermediate, upper}};
+        for (State[] step : steps) {
+            if (!AlkaliLines.isElectricDipole(step[0], step[1])) {
+                throw new IllegalArgumentException("the step " + step[0].notation() + " -> " + step[1].notation()
+                        + " is not an electric-dipole line (needs Delta l = 1, Delta j <= 1)");
+            }
+        }
         double first = frequencyHz(lower, intermediate);
         double second = frequencyHz(intermediate, upper);
         if (!(first > 0) || !(second > 0)) {
-            throw new IllegalArgumentException("a ladder needs ascending energies: " + lower + " -> " + intermediate
-                    + " -> " + upper + " has steps of " + first + " Hz and " + second + " Hz");
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "a ladder needs ascending "
+                    + "energies: %s -> %s -> %s has steps of %.6f GHz and %.6f GHz", lower.notation(),
+                    intermediate.notation(), upper.notation(), first * 1e-9, second * 1e-9));
         }
         return new LadderExcitation(lower, intermediate, upper, first, second);
     }

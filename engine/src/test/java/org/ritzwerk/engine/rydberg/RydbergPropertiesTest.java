@@ -231,6 +231,9 @@ class RydbergPropertiesTest {
                 State.of(30, 1, 1), 1, 2));
         assertThrows(IllegalArgumentException.class, () -> rubidium.ladder(State.of(5, 1, 3), State.of(5, 0, 1),
                 State.of(40, 0, 1)));
+        // each step must be an electric-dipole line: 5p1/2 -> 50d5/2 (Delta j = 2) is not
+        assertTrue(assertThrows(IllegalArgumentException.class, () -> rubidium.ladder(State.of(5, 0, 1),
+                State.of(5, 1, 1), State.of(50, 2, 5))).getMessage().contains("is not an electric-dipole line"));
         assertThrows(IllegalArgumentException.class, () -> rubidium.blackbodyRate(State.of(30, 0, 1), Double.NaN));
     }
 
