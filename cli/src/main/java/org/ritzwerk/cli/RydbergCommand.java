@@ -382,8 +382,9 @@ final class RydbergCommand implements Runnable {
     @Command(name = "microwave", mixinStandardHelpOptions = true,
             description = "Microwave electrometry on the transition --state -> --to: the Autler-Townes splitting "
                     + "Omega / 2 pi = |d| E / h for a field amplitude --field, or the field a measured --splitting "
-                    + "means, with the dipole element of the polarisation q = m_j(to) - m_j(state) stated; or, with "
-                    + "--near, the dipole transitions from --state within --window of a frequency.")
+                    + "means, with the dipole element of the polarisation q = m_j(upper) - m_j(lower) stated (the "
+                    + "one that drives absorption from the lower of the two states); or, with --near, the dipole "
+                    + "transitions from --state within --window of a frequency.")
     static final class Microwave implements Callable<Integer> {
         @Spec
         CommandSpec spec;
