@@ -92,7 +92,9 @@ final class LinesCommand implements Callable<Integer> {
     boolean hyperfine;
 
     @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA",
-            description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla (0 to 1000).")
+            description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla (0 to "
+                    + "1000; each level diagonalised on its own, up to the hyperfine Paschen-Back regime; a note "
+                    + "gives the size of the fine-structure mixing left out where it exceeds 0.1 MHz).")
     Double fieldTesla;
 
     @Option(names = "--intercombination",
@@ -230,7 +232,8 @@ final class LinesCommand implements Callable<Integer> {
         if (fieldTesla != null) {
             OptionRules.range(HyperfineTables.FIELD_OPTION, fieldTesla, 0, true, 1000, "a field of 0 to 1000 T");
         }
-        HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, spec.commandLine().getOut(), format);
+        HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, spec.commandLine().getOut(),
+                spec.commandLine().getErr(), format);
         return 0;
     }
 

@@ -36,7 +36,12 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * <p><b>Constants</b>: mu_B / h = e / (4 pi m_e) and the electron spin g factor 2 (1 + a_e) from
  * CODATA 2018 ({@link PhysicalConstants}); g_J of a level by the Lande formula with g_L = 1 (the
  * reduced-mass correction 1 - m_e/M of g_L, below 2e-5 here, is left out); g_I = -(mu_I / mu_N)
- * (m_e / m_p) / I from a nuclear moment.
+ * (m_e / m_p) / I from a nuclear moment (the bare nucleus': the atom's electrons shield it, and the
+ * g_I measured in the atom differs by a few tenths of a per cent, a few Hz per unit of m_F at 1e-4 T).
+ *
+ * <p><b>Limit</b>: each level is diagonalised on its own, so the field's mixing of the two
+ * fine-structure levels of a term (the fine-structure Paschen-Back effect) is left out;
+ * {@link #fineStructureMixingHertz} gives its size. The hyperfine Paschen-Back regime is covered.
  */
 public final class ZeemanStructure {
 
@@ -73,6 +78,33 @@ public final class ZeemanStructure {
         double ss = 0.75;
         double ll = l * (l + 1.0);
         return (jj - ss + ll) / (2 * jj) + electronSpinG() * (jj + ss - ll) / (2 * jj);
+    }
+
+    /**
+     * The size of what treating a level on its own leaves out: a field mixes the two fine-structure
+     * levels j = l -+ 1/2 of a one-electron term through the spin's anomalous moment. In second
+     * order the m_j = +-1/2 states move most, by
+     * {@code (g_S - g_L)^2 (mu_B B)^2 l (l + 1) / ((2l + 1)^2 dE_fs)} (common practice: the
+     * off-diagonal element of S_z between the two levels; (2/9) (mu_B B)^2 / dE_fs for p). At
+     * Li-6's 832 G it is about 30 MHz on the 2p levels; at 1 G on Rb 5p, below 1e-7 MHz.
+     *
+     * @param l                  the term's orbital angular momentum; 0 gives 0
+     * @param fineStructureHertz the splitting E(l + 1/2) - E(l - 1/2), Hz; its magnitude is used
+     * @param fieldTesla         the field, tesla, 0 to {@link #MAX_FIELD_TESLA}
+     * @return the largest second-order shift left out, Hz (an estimate: where it nears the
+     *         splitting itself, the mixing is strong and the shift is of the order of mu_B B)
+     */
+    public static double fineStructureMixingHertz(int l, double fineStructureHertz, double fieldTesla) {
+        checkField(fieldTesla);
+        if (l < 0 || !Double.isFinite(fineStructureHertz) || l > 0 && fineStructureHertz == 0) {
+            throw new IllegalArgumentException("fine-structure mixing needs l >= 0 and a finite non-zero splitting, "
+                    + "got l = " + l + ", " + fineStructureHertz + " Hz");
+        }
+        if (l == 0) {
+            return 0;
+        }
+        double coupling = (electronSpinG() - 1) * bohrMagnetonHertzPerTesla() * fieldTesla;
+        return coupling * coupling * l * (l + 1.0) / ((2 * l + 1.0) * (2 * l + 1.0) * Math.abs(fineStructureHertz));
     }
 
     /**

@@ -89,6 +89,34 @@ class ZeemanStructureTest {
         }
     }
 
+    /**
+     * The estimate of the fine-structure mixing left out, against the exact two-level problem of
+     * an m_j = 1/2 state of a p term: |3/2, 1/2> and |1/2, 1/2>, dE_fs apart, with Zeeman diagonal
+     * g_j m_j mu_B B and off-diagonal (g_S - 1) mu_B B sqrt(2) / 3 (common practice, from the
+     * Clebsch-Gordan coefficients of l = 1, s = 1/2). Li 2p (10.05 GHz) at 832 G: about 30 MHz
+     * (29 MHz exactly).
+     */
+    @Test
+    void fineStructureMixingEstimateMatchesTheTwoLevelProblem() {
+        double fs = 10.05e9;
+        double gS = ZeemanStructure.electronSpinG();
+        // second order: within 0.1 % at 10 G, 5 % at 832 G (mu_B B = 1.2 GHz, a ninth of the splitting)
+        for (double[] at : new double[][] {{1e-3, 0.001}, {0.0832, 0.05}}) {
+            double tesla = at[0];
+            double mub = ZeemanStructure.bohrMagnetonHertzPerTesla() * tesla;
+            double a = fs + ZeemanStructure.landeG(1, 3) * mub / 2;
+            double b = ZeemanStructure.landeG(1, 1) * mub / 2;
+            double c = (gS - 1) * mub * Math.sqrt(2) / 3;
+            double upper = (a + b) / 2 + Math.sqrt((a - b) * (a - b) / 4 + c * c);
+            double exact = upper - a;
+            double estimate = ZeemanStructure.fineStructureMixingHertz(1, fs, tesla);
+            assertEquals(exact, estimate, at[1] * exact, "B = " + tesla + " T");
+        }
+        assertEquals(30e6, ZeemanStructure.fineStructureMixingHertz(1, fs, 0.0832), 1e6);
+        assertEquals(0, ZeemanStructure.fineStructureMixingHertz(0, 1e9, 1));
+        assertThrows(IllegalArgumentException.class, () -> ZeemanStructure.fineStructureMixingHertz(1, 0, 1));
+    }
+
     @Test
     void badFieldIsRefused() {
         assertThrows(IllegalArgumentException.class, () -> ZeemanStructure.eigenstates(3, 1, RB87_5S, 2, 0, -1));
