@@ -51,9 +51,10 @@ final class LevelsCommand implements Callable<Integer> {
     @Mixin
     DataOptions data;
 
-    @Option(names = "--n-max", paramLabel = "N", defaultValue = "4",
-            description = "Highest principal quantum number (default: ${DEFAULT-VALUE}; at most 2000).")
-    int nMax;
+    @Option(names = "--n-max", paramLabel = "N",
+            description = "Highest principal quantum number (default: 4, and for alkali atoms two above the ground "
+                    + "level's n, e.g. 7 for Rb, so the ground and first p levels show; at most 2000).")
+    Integer nMax;
 
     @Option(names = "--lifetimes",
             description = "Add each level's radiative lifetime from E1 decays alone: null for 1s; 2s decays mainly "
@@ -87,7 +88,7 @@ final class LevelsCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        if (nMax < 1 || nMax > 2000) {
+        if (nMax != null && (nMax < 1 || nMax > 2000)) {
             throw new OptionException("--n-max must be 1 to 2000, got " + nMax);
         }
         List<Table.Column> columns = new ArrayList<>(List.of(
@@ -121,6 +122,8 @@ final class LevelsCommand implements Callable<Integer> {
                 + levelSets.levels().stream().map(l -> l.species().notation()).toList() + " (a level list gives no"
                 + " lifetimes)");
         boolean alkali = !atoms.alkalis().isEmpty();
+        int highestN = nMax != null ? nMax
+                : Math.max(4, atoms.alkalis().stream().mapToInt(a -> a.groundState().n() + 2).max().orElse(4));
         rules.refuseUnless("--temperature", lifetimes, "without --lifetimes (it sets the black-body temperature of the"
                 + " effective lifetimes)");
         rules.refuseUnless("--temperature", alkali, "for one-electron ions (--species names no alkali atom; the"
@@ -154,7 +157,7 @@ final class LevelsCommand implements Callable<Integer> {
                 : "for species with a level list " + listed + " (--species names no one-electron ion; their"
                         + " energies are the list's)");
         if (lifetimes) {
-            WorkEstimate.hydrogenLifetimes(nMax, atoms.ions().size()).ifPresent(note -> {
+            WorkEstimate.hydrogenLifetimes(highestN, atoms.ions().size()).ifPresent(note -> {
                 spec.commandLine().getErr().println(note);
                 spec.commandLine().getErr().flush();
             });
@@ -169,12 +172,13 @@ final class LevelsCommand implements Callable<Integer> {
         for (RitzLevels set : levelSets.levels()) {
             sources = sources.withLevels(set);
         }
-        LevelQuery query = LevelQuery.defaults().withMaxN(nMax).withMaxL(lMax).withLifetimes(lifetimes)
+        LevelQuery query = LevelQuery.defaults().withMaxN(highestN).withMaxL(lMax).withLifetimes(lifetimes)
                 .withHyperfine(hyperfine);
         if (temperature != null) {
             query = query.withBlackBodyTemperature(temperature);
         }
         Table table = new Table(columns, spec.commandLine().getOut(), format);
+        Map<Species, List<String>> unsplit = new java.util.LinkedHashMap<>();
         Map<Species, DoubleConsumer> progress = new HashMap<>();
         query.run(sources, (species, fraction) -> progress.computeIfAbsent(species, s -> Progress.on(
                 spec.commandLine().getErr(), "levels: " + s.notation() + (lifetimes ? " lifetimes" : "")))
@@ -186,6 +190,9 @@ final class LevelsCommand implements Callable<Integer> {
                             boxed(part.statisticalWeight(i)), part.energyPerCm(i), part.model(i),
                             boxed(part.lifetimeSeconds(i)), boxed(part.effectiveLifetimeSeconds(i))};
                         table.add(Arrays.copyOf(row, columns.size()));
+                        if (hyperfine && part.twoF(i).isEmpty() && atoms.ions().isEmpty()) {
+                            unsplit.computeIfAbsent(part.species(i), k -> new ArrayList<>()).add(part.label(i));
+                        }
                     }
                     for (LevelSet.Omission omitted : part.omissions()) {
                         spec.commandLine().getErr().println("note: " + omitted.species().notation() + ": "
@@ -195,6 +202,10 @@ final class LevelsCommand implements Callable<Integer> {
                     }
                 });
         table.finish();
+        unsplit.forEach((species, labels) -> spec.commandLine().getErr().println("note: " + species.notation()
+                + ": no hyperfine constants for " + labels.size() + " level(s), listed unsplit (F -): "
+                + String.join(", ", labels.subList(0, Math.min(8, labels.size()))) + (labels.size() > 8 ? ", ..." : "")
+                + "; README, Data provenance, names the levels that have them"));
         return 0;
     }
 

@@ -63,6 +63,24 @@ class HyperfineCommandTest {
                 + "about 30.1 MHz"), lithium.err());
     }
 
+    /**
+     * By default an alkali atom's levels reach two above its ground n (Rb: 7), so the ground and
+     * first p levels show (the default of 4 listed only Rb 4d and 4f); with --hyperfine the levels
+     * without constants are named in a note instead of passing unsplit without a word.
+     */
+    @Test
+    void alkaliLevelsStartAtTheGroundAndUnsplitLevelsAreNamed() {
+        CliTest.Run rb = CliTest.run("levels", "--species", "Rb-87 I", "--hyperfine");
+        assertEquals(0, rb.code(), rb.err());
+        assertTrue(rb.out().contains("5s 2S1/2") && rb.out().contains("7s 2S1/2") && !rb.out().contains("8s 2S1/2"),
+                rb.out());
+        assertTrue(rb.err().contains("note: Rb-87 I: no hyperfine constants for ") && rb.err().contains("5d 2D5/2")
+                && rb.err().contains("listed unsplit (F -)"), rb.err());
+        CliTest.Run cs = CliTest.run("levels", "--species", "Cs I");
+        assertTrue(cs.out().contains("6s 2S1/2") && cs.out().contains("6p 2P3/2"), cs.out());
+        assertTrue(CliTest.run("levels", "--species", "Cs I", "--n-max", "5").out().contains("5d 2D5/2"));
+    }
+
     @Test
     void badInputIsRefusedWithExit2() {
         CliTest.Run negative = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "-1");
