@@ -31,8 +31,9 @@ import picocli.CommandLine.Spec;
                 + "the ground state, under a chosen model: bohr (reduced mass), dirac (fine structure and "
                 + "recoil), qed (plus the leading Lamb shift and nuclear size), hyperfine (plus s-level "
                 + "hyperfine structure). Nuclear data from the built-in set (AME2020 masses, ...). Also the "
-                + "neutral alkali atoms (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133): measured low levels and "
-                + "quantum-defect (Rydberg-Ritz) levels up to --n-max, l <= --l-max; the model column says "
+                + "neutral alkali atoms (Li-6, Li-7, Na-23, K-39, K-40, K-41, Rb-85, Rb-87, Cs-133): measured "
+                + "low levels and quantum-defect (Rydberg-Ritz) levels up to --n-max, l <= --l-max; the model "
+                + "column says "
                 + "where each energy comes from.",
         footer = {"", "Examples:",
             "  ritzwerk levels --species \"H I\" --n-max 3",

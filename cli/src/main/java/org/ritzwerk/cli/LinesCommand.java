@@ -23,10 +23,10 @@ import picocli.CommandLine.Spec;
         description = "Electric-dipole lines of one-electron ions between two spectral positions, with Einstein "
                 + "A, oscillator strength and line name: fine-structure components, or n -> n' multiplets "
                 + "with --multiplets. --from and --to take any unit; a wavelength without a medium is in "
-                + "vacuum (write \"400 nm air\" for air). Also the neutral alkali atoms (Li-7, Na-23, K-39, "
-                + "Rb-85, Rb-87, Cs-133): lines between their levels (n <= --n-max, l <= --l-max), one "
-                + "--transition in detail, or a two-photon --ladder. --hyperfine: the F -> F' components of "
-                + "the D lines of alkali isotopes (also Li-6, K-40, K-41), each with its share of the line "
+                + "vacuum (write \"400 nm air\" for air). Also the neutral alkali atoms (Li-6, Li-7, Na-23, "
+                + "K-39, K-40, K-41, Rb-85, Rb-87, Cs-133): lines between their levels (n <= --n-max, "
+                + "l <= --l-max), one --transition in detail, or a two-photon --ladder. --hyperfine: the "
+                + "F -> F' components of the D lines of alkali isotopes, each with its share of the line "
                 + "strength; with --field-tesla their m_F components.",
         footer = {"", "Examples:",
             "  ritzwerk lines --species \"H I\" --from \"400 nm air\" --to \"700 nm air\" --medium air",

@@ -120,6 +120,8 @@ final class OptionRules {
         if (magnitude == 0 || (magnitude >= 1e-4 && magnitude < 1e9)) {
             return BigDecimal.valueOf(value).stripTrailingZeros().toPlainString();
         }
-        return String.format(Locale.ROOT, "%.6g", value).replaceFirst("\\.?0+e", "e").replace("e+", "e");
+        // 1e+09 reads 1e9, 2.50000e-07 reads 2.5e-7
+        return String.format(Locale.ROOT, "%.6g", value).replaceFirst("\\.?0+e", "e").replace("e+", "e")
+                .replaceFirst("e(-?)0+(\\d)", "e$1$2");
     }
 }

@@ -34,7 +34,7 @@ import picocli.CommandLine.Spec;
         header = "Alkali Rydberg atoms in static and microwave fields, and in pairs.",
         description = "Stark maps, static polarizabilities, microwave (Autler-Townes) electrometry and the "
                 + "interaction of two Rydberg atoms (C3, C6, blockade radius), for the alkali atoms with built-in "
-                + "quantum defects (Li-7, Na-23, K-39, Rb-85, Rb-87, Cs-133) or a --data file.",
+                + "quantum defects (Li-6, Li-7, Na-23, K-39, K-40, K-41, Rb-85, Rb-87, Cs-133) or a --data file.",
         footer = {"", "Examples:",
             "  ritzwerk rydberg polarizability --species \"Rb-87 I\" --state 60s1/2",
             "  ritzwerk rydberg stark-map --species \"Rb-87 I\" --state 50d5/2 --mj 1/2 --field-max 2",

@@ -47,7 +47,12 @@ final class Table {
         }
 
         static Column number(String key, String heading, String pattern) {
-            return new Column(key, heading, value -> String.format(Locale.ROOT, pattern, value));
+            return new Column(key, heading, value -> unsignedZero(String.format(Locale.ROOT, pattern, value)));
+        }
+
+        /** "-0.000000" (a tiny negative value rounded away) reads "0.000000". */
+        private static String unsignedZero(String text) {
+            return text.startsWith("-") && text.chars().noneMatch(c -> c >= '1' && c <= '9') ? text.substring(1) : text;
         }
     }
 

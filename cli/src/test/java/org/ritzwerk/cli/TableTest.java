@@ -38,6 +38,17 @@ class TableTest {
     }
 
     @Test
+    void aRoundedNegativeZeroHasNoSignAndLargeOrSmallValuesReadShort() {
+        Table.Column column = Table.Column.number("e", "e", "%.6f");
+        assertEquals("0.000000", column.display().apply(-1e-12));
+        assertEquals("-0.000001", column.display().apply(-1e-6));
+        assertEquals("-1.500000", column.display().apply(-1.5));
+        assertEquals("1e9", OptionRules.show(1e9));
+        assertEquals("2.5e-7", OptionRules.show(2.5e-7));
+        assertEquals("1.23457e-12", OptionRules.show(1.2345678e-12));
+    }
+
+    @Test
     void anEmptyTableStillHasItsHeading() {
         StringWriter csv = new StringWriter();
         new Table(COLUMNS, new PrintWriter(csv), Table.Format.csv).finish();
