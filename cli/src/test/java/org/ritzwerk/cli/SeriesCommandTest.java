@@ -29,6 +29,28 @@ class SeriesCommandTest {
         return file;
     }
 
+    /** Energies as frequencies E / h (comb and wavemeter data) give the same fit as in cm-1. */
+    @Test
+    void energiesInGigahertzGiveTheSameFit(@TempDir Path dir) throws IOException {
+        Path file = example(dir);
+        double ghzPerCm = 29.9792458; // c in cm/ns, exact
+        StringBuilder ghz = new StringBuilder();
+        for (String line : Files.readAllLines(file)) {
+            String[] f = line.split(",");
+            if (line.startsWith("# energy-unit:")) {
+                line = "# energy-unit: GHz";
+            } else if (!line.startsWith("#") && f.length == 4 && !f[0].equals("series")) {
+                line = f[0] + "," + f[1] + "," + Double.parseDouble(f[2]) * ghzPerCm + ","
+                        + Double.parseDouble(f[3]) * ghzPerCm;
+            }
+            ghz.append(line).append('\n');
+        }
+        Path inGhz = dir.resolve("series-ghz.csv");
+        Files.writeString(inGhz, ghz);
+        assertEquals(limitFrom(CliTest.run("series", file.toString(), "--format", "json")),
+                limitFrom(CliTest.run("series", inGhz.toString(), "--format", "json")), 1e-6);
+    }
+
     @Test
     void givesBackTheLimitAndDefectsTheMembersCameFrom(@TempDir Path dir) throws IOException {
         Path file = example(dir);

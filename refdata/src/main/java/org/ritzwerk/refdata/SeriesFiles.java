@@ -27,7 +27,8 @@ import org.ritzwerk.quantity.Unit;
  * 1snp 1P1,10,197225.4,0.05
  * </pre>
  * Header keys {@code species} (a neutral atom; its mass number picks the isotope whose R_M is used,
- * none the element's default isotope) and {@code energy-unit} (a wavenumber or energy unit) are
+ * none the element's default isotope) and {@code energy-unit} (a wavenumber, energy or frequency
+ * unit: cm-1, m-1, eV, meV, J, or Hz to THz for energies E / h as comb and wavemeter data come) are
  * required, {@code title}, {@code source} and {@code note} optional. Every column is required:
  * {@code series} (a name; rows of one name form one series, in the order the names first appear),
  * {@code n} (an integer 1 to 10000, once per series), {@code energy} above the ground level and its
@@ -82,7 +83,7 @@ public final class SeriesFiles {
         TabularFiles.Parsed p = TabularFiles.isJson(source, text) ? TabularFiles.parseJson(SPEC, text, source)
                 : TabularFiles.parseCsv(SPEC, text, source);
         p.checkHeader();
-        Unit unit = p.unit(EnumSet.of(Kind.WAVENUMBER, Kind.ENERGY));
+        Unit unit = p.unit(EnumSet.of(Kind.WAVENUMBER, Kind.ENERGY, Kind.FREQUENCY));
         Species species = null;
         String speciesText = p.header.get("species");
         if (speciesText != null && !speciesText.isBlank()) {
