@@ -33,11 +33,12 @@ final class HyperfineTables {
      * @param context    the data context
      * @param atoms      alkali atoms (isotopes)
      * @param fieldTesla the field in tesla, or null for the zero-field F -> F' components
+     * @param air        whether to add each component's wavelength in standard air
      * @param out        where the table goes
      * @param err        where notes go
      * @param format     the table format
      */
-    static void print(DataContext context, List<AlkaliAtom> atoms, Double fieldTesla, PrintWriter out,
+    static void print(DataContext context, List<AlkaliAtom> atoms, Double fieldTesla, boolean air, PrintWriter out,
             PrintWriter err, Table.Format format) {
         AlkaliHyperfine data = context.alkaliHyperfine();
         for (AlkaliAtom atom : atoms) {
@@ -48,25 +49,26 @@ final class HyperfineTables {
             }
         }
         boolean zeeman = fieldTesla != null;
-        Table table = new Table(zeeman ? List.of(
+        List<Table.Column> columns = new java.util.ArrayList<>(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("line", "line"),
                 Table.Column.text("lower", "lower"),
-                Table.Column.text("upper", "upper"),
-                Table.Column.text("polarisation", "pol"),
+                Table.Column.text("upper", "upper")));
+        if (zeeman) {
+            columns.add(Table.Column.text("polarisation", "pol"));
+        }
+        columns.addAll(List.of(
                 Table.Column.number("frequency_hz", "Hz", "%.12e"),
                 Table.Column.number("offset_mhz", "MHz from centroid", "%.4f"),
-                Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.7f"),
-                Table.Column.number("relative_strength", "share", "%.6g"),
-                Table.Column.number("field_tesla", "T", "%.6g")) : List.of(
-                Table.Column.text("species", "species"),
-                Table.Column.text("line", "line"),
-                Table.Column.text("lower", "lower"),
-                Table.Column.text("upper", "upper"),
-                Table.Column.number("frequency_hz", "Hz", "%.12e"),
-                Table.Column.number("offset_mhz", "MHz from centroid", "%.4f"),
-                Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.7f"),
-                Table.Column.number("relative_strength", "share", "%.6f")), out, format);
+                Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.7f")));
+        if (air) {
+            columns.add(Table.Column.number("air_wavelength_nm", "air nm", "%.7f"));
+        }
+        columns.add(Table.Column.number("relative_strength", "share", zeeman ? "%.6g" : "%.6f"));
+        if (zeeman) {
+            columns.add(Table.Column.number("field_tesla", "T", "%.6g"));
+        }
+        Table table = new Table(columns, out, format);
         for (AlkaliAtom atom : atoms) {
             Species species = atom.species();
             State ground = atom.groundState();
@@ -78,24 +80,39 @@ final class HyperfineTables {
                 double centroid = atom.frequencyHz(ground, upper);
                 if (zeeman) {
                     for (ZeemanComponent c : data.zeemanComponents(context, species, ground, upper, fieldTesla)) {
-                        table.add(species.notation(), d.line(),
+                        List<Object> row = new java.util.ArrayList<>(List.of(species.notation(), d.line(),
                                 ground.notation() + " F=" + half(c.twoFLower()) + " mF=" + half(c.twoMFLower()),
                                 upper.notation() + " F'=" + half(c.twoFUpper()) + " mF'=" + half(c.twoMFUpper()),
-                                c.q() == 0 ? "pi" : c.q() > 0 ? "sigma+" : "sigma-", c.frequencyHertz(),
-                                (c.frequencyHertz() - centroid) / 1e6, PhysicalConstants.C / c.frequencyHertz() * 1e9,
-                                c.relativeStrength(), fieldTesla);
+                                c.q() == 0 ? "pi" : c.q() > 0 ? "sigma+" : "sigma-"));
+                        addPosition(row, c.frequencyHertz(), centroid, air);
+                        row.add(c.relativeStrength());
+                        row.add(fieldTesla);
+                        table.add(row.toArray());
                     }
                 } else {
                     for (HyperfineComponent c : data.components(context, species, ground, upper)) {
-                        table.add(species.notation(), d.line(), ground.notation() + " F=" + half(c.twoFLower()),
-                                upper.notation() + " F'=" + half(c.twoFUpper()), c.frequencyHertz(),
-                                (c.frequencyHertz() - centroid) / 1e6, PhysicalConstants.C / c.frequencyHertz() * 1e9,
-                                c.relativeStrength());
+                        List<Object> row = new java.util.ArrayList<>(List.of(species.notation(), d.line(),
+                                ground.notation() + " F=" + half(c.twoFLower()),
+                                upper.notation() + " F'=" + half(c.twoFUpper())));
+                        addPosition(row, c.frequencyHertz(), centroid, air);
+                        row.add(c.relativeStrength());
+                        table.add(row.toArray());
                     }
                 }
             }
         }
         table.finish();
+    }
+
+    /** Adds frequency, offset from the centroid, vacuum wavelength and (for air) the air wavelength. */
+    private static void addPosition(List<Object> row, double hertz, double centroidHertz, boolean air) {
+        double vacuumMetres = PhysicalConstants.C / hertz;
+        row.add(hertz);
+        row.add((hertz - centroidHertz) / 1e6);
+        row.add(vacuumMetres * 1e9);
+        if (air) {
+            row.add(AlkaliTables.air(vacuumMetres) * 1e9);
+        }
     }
 
     /** Notes the fine-structure mixing the components leave out where it exceeds 0.1 MHz. */

@@ -223,7 +223,7 @@ final class LinesCommand implements Callable<Integer> {
                     + " components of the hyperfine lines)");
         }
         for (String option : new String[] {"--from", "--to", "--n-max", "--l-max", "--min-a", "--multiplets",
-            "--medium", "--transition", "--ladder", "--temperature"}) {
+            "--transition", "--ladder", "--temperature"}) {
             rules.refuseUnless(option, false, "with --hyperfine (it lists the D lines' hyperfine components)");
         }
         if (atoms.alkalis().isEmpty() || !atoms.ions().isEmpty()) {
@@ -232,8 +232,8 @@ final class LinesCommand implements Callable<Integer> {
         if (fieldTesla != null) {
             OptionRules.range(HyperfineTables.FIELD_OPTION, fieldTesla, 0, true, 1000, "a field of 0 to 1000 T");
         }
-        HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, spec.commandLine().getOut(),
-                spec.commandLine().getErr(), format);
+        HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, AxisMedium.isAir(medium),
+                spec.commandLine().getOut(), spec.commandLine().getErr(), format);
         return 0;
     }
 

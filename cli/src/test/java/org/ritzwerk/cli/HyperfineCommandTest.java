@@ -81,6 +81,27 @@ class HyperfineCommandTest {
         assertTrue(CliTest.run("levels", "--species", "Cs I", "--n-max", "5").out().contains("5d 2D5/2"));
     }
 
+    /** --medium air adds each component's wavelength in standard air (it was refused with --hyperfine). */
+    @Test
+    void componentsInAir() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--medium", "air", "--format",
+                "csv");
+        assertEquals(0, run.code(), run.err());
+        String[] rows = run.out().strip().split("\n");
+        assertTrue(rows[0].contains(",vacuum_wavelength_nm,air_wavelength_nm,relative_strength"), rows[0]);
+        for (int i = 1; i < rows.length; i++) {
+            String[] f = rows[i].split(",");
+            double vacuum = Double.parseDouble(f[f.length - 3]);
+            double air = Double.parseDouble(f[f.length - 2]);
+            assertEquals(org.ritzwerk.medium.Medium.air().fromVacuum(vacuum * 1e-9) * 1e9, air, 1e-9, rows[i]);
+            assertTrue(vacuum - air > 0.2 && vacuum - air < 0.23, rows[i]); // about 0.21 nm at 780-795 nm
+        }
+        CliTest.Run zeeman = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "0.001",
+                "--medium", "air", "--format", "csv");
+        assertTrue(zeeman.out().startsWith("species,line,lower,upper,polarisation,frequency_hz,offset_mhz,"
+                + "vacuum_wavelength_nm,air_wavelength_nm,relative_strength,field_tesla"), zeeman.out());
+    }
+
     @Test
     void badInputIsRefusedWithExit2() {
         CliTest.Run negative = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "-1");
