@@ -127,12 +127,15 @@ public final class CalibrationProblem {
 
         /**
          * @return the problem
-         * @throws IllegalArgumentException when no counts or no lamp are given, or the
-         *         uncertainties do not have one value per pixel
+         * @throws CalibrationException    ({@link CalibrationException#UNUSABLE_COUNTS}) for an
+         *                                  exposure without pixels, as for every unusable count
+         * @throws IllegalArgumentException when no lamp is given, or the uncertainties do not have one
+         *                                  value per pixel
          */
         public CalibrationProblem build() {
             if (counts.length == 0) {
-                throw new IllegalArgumentException(source + ": the exposure has no pixels");
+                throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, source
+                        + ": the exposure has no pixels");
             }
             if (lamp == null) {
                 throw new IllegalArgumentException("a calibration needs the lamp's lines (Builder.lamp)");

@@ -282,7 +282,8 @@ public final class PeakFinder {
         for (int i = 0; i < n; i++) {
             double c = counts[i];
             if (!Double.isFinite(c)) {
-                throw new IllegalArgumentException("pixel " + i + ": counts must be finite, got " + c);
+                throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, "pixel " + i
+                        + ": counts must be finite, got " + c);
             }
             if (c < 0 && !negativeAllowed) {
                 throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, "pixel " + i
@@ -305,8 +306,8 @@ public final class PeakFinder {
             }
             for (int i = 0; i < n; i++) {
                 if (!(sigma[i] > 0) || Double.isInfinite(sigma[i])) {
-                    throw new IllegalArgumentException("pixel " + i + ": uncertainty must be finite and positive, got "
-                            + sigma[i]);
+                    throw new CalibrationException(CalibrationException.UNUSABLE_COUNTS, "pixel " + i
+                            + ": uncertainty must be finite and positive, got " + sigma[i]);
                 }
             }
         }

@@ -167,7 +167,7 @@ class CalibrationPeakFinderTest {
         double[] counts = render(64, 100, new double[] {30}, new double[] {1e3}, 3);
         double[] nan = counts.clone();
         nan[17] = Double.NaN;
-        assertMessage("pixel 17: counts must be finite", () -> finder.find(nan));
+        assertUnusable("pixel 17: counts must be finite", () -> finder.find(nan));
         double[] negative = counts.clone();
         negative[3] = -2;
         assertUnusable("pixel 3: counts must not be negative", () -> finder.find(negative));
@@ -181,7 +181,7 @@ class CalibrationPeakFinderTest {
         double[] sigma = new double[64];
         Arrays.fill(sigma, 1);
         sigma[5] = 0;
-        assertMessage("pixel 5: uncertainty must be finite and positive", () -> finder.find(counts, sigma));
+        assertUnusable("pixel 5: uncertainty must be finite and positive", () -> finder.find(counts, sigma));
         assertMessage("threshold must be", () -> finder.withThreshold(Double.NaN));
         assertMessage("baseline window must be at least 5", () -> finder.withBaselineWindow(4));
     }

@@ -126,12 +126,16 @@ class CalibratorTest {
                 () -> CalibrationProblem.builder(new double[100]).sigmas(new double[99]).lamp(lamp).source("x.csv")
                         .build());
         assertTrue(sigmas.getMessage().contains("x.csv") && sigmas.getMessage().contains("99"), sigmas.getMessage());
-        assertThrows(IllegalArgumentException.class, () -> CalibrationProblem.builder(new double[0]).lamp(lamp).build());
+        // every unusable count is the package's UNUSABLE_COUNTS, as negative or constant counts were
+        // (NaN pixels and an empty exposure were IllegalArgumentExceptions)
+        assertEquals(CalibrationException.UNUSABLE_COUNTS, assertThrows(CalibrationException.class,
+                () -> CalibrationProblem.builder(new double[0]).lamp(lamp).build()).code());
         double[] counts = new LampScene(40, 7, 8).exposure(1);
         counts[17] = Double.NaN;
-        IllegalArgumentException nan = assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults()
+        CalibrationException nan = assertThrows(CalibrationException.class, () -> Calibrator.defaults()
                 .calibrate(CalibrationProblem.builder(counts).lamp(lamp).source("lamp.csv").build()));
-        assertTrue(nan.getMessage().startsWith("lamp.csv: "), nan.getMessage());
+        assertTrue(nan.getMessage().startsWith("lamp.csv: pixel 17: counts must be finite"), nan.getMessage());
+        assertEquals(CalibrationException.UNUSABLE_COUNTS, nan.code());
         assertThrows(IllegalArgumentException.class, () -> LampSet.of(List.of(), Medium.air()));
     }
 
