@@ -19,7 +19,9 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
  * level models, alkali atoms with their quantum-defect models, the levels of any species (lines by
  * the Ritz combination principle), line lists, and ready-made line sets. Nothing is looked up anywhere else. Sources are asked in the order they were added.
  *
- * <p>Immutable and thread-safe; each {@code with} method returns a new object.
+ * <p>Immutable and thread-safe; each {@code with} method returns a new object, and refuses with an
+ * {@link IllegalArgumentException} a source given already (the same species from a model or its
+ * levels, or the same list or set object), whose lines would all come twice.
  */
 public final class LineSources {
 
@@ -128,7 +130,22 @@ public final class LineSources {
         return entries;
     }
 
+    /**
+     * Adds a source; refuses one given already (the same species from a model or levels, or the
+     * same list or set), whose lines would all come twice.
+     */
     private LineSources with(Entry entry) {
+        for (Entry e : entries) {
+            boolean sameModelled = entry.list() == null && entry.set() == null && e.list() == null && e.set() == null
+                    && entry.species().equals(e.species());
+            boolean sameList = entry.list() != null && entry.list() == e.list()
+                    || entry.set() != null && entry.set() == e.set();
+            if (sameModelled || sameList) {
+                throw new IllegalArgumentException((sameModelled ? entry.species().notation() + " is"
+                        : "this " + (entry.list() != null ? "line list" : "line set") + " is")
+                        + " a source already: its lines would all come twice; give each source once");
+            }
+        }
         List<Entry> more = new ArrayList<>(entries);
         more.add(entry);
         return new LineSources(List.copyOf(more));

@@ -106,7 +106,7 @@ public final class Scene {
      *         10 000 peak counts, no continuum, noise-free
      */
     public static Builder builder(PixelGrid grid) {
-        return new Builder(grid);
+        return new Builder(Objects.requireNonNull(grid, "grid"));
     }
 
     /** @return the lines that go into the spectrum, before scaling (photon rates) */
@@ -349,7 +349,7 @@ public final class Scene {
          * @return this builder
          */
         public Builder hydrogenLike(Species species, HydrogenLikeModel model, double abundance) {
-            Objects.requireNonNull(model, "model").requireIon(species);
+            Objects.requireNonNull(model, "model").requireIon(species); // names a null species too
             positive("abundance of " + species.notation(), abundance);
             ions.add(new HydrogenLikeEmitter(species, model, abundance));
             return this;
@@ -623,7 +623,7 @@ public final class Scene {
          * @return this builder
          */
         public Builder medium(Medium axisMedium) {
-            this.medium = axisMedium;
+            this.medium = Objects.requireNonNull(axisMedium, "axis medium");
             return this;
         }
 
@@ -632,7 +632,7 @@ public final class Scene {
          * @return this builder
          */
         public Builder instrument(Instrument response) {
-            this.instrument = response;
+            this.instrument = Objects.requireNonNull(response, "instrument");
             return this;
         }
 
@@ -672,6 +672,7 @@ public final class Scene {
          * @return this builder
          */
         public Builder continuum(DoubleUnaryOperator density, double brightestPixelCounts) {
+            Objects.requireNonNull(density, "continuum density");
             positive("continuum counts", brightestPixelCounts);
             this.continuum = density;
             this.continuumCounts = brightestPixelCounts;

@@ -33,6 +33,21 @@ class LineSetSourcesTest {
     private static final double ATOMIC_DIPOLE = PhysicalConstants.E * PhysicalConstants.FINE_STRUCTURE.value()
             / (4 * Math.PI * PhysicalConstants.RYDBERG.value());
 
+    /** A source given twice would double every line (a Balmer query gave 6 multiplets for 3); refused. */
+    @Test
+    void aSourceGivenTwiceIsRefused() {
+        HydrogenLikeModel model = HydrogenLikeModel.of(Sources.HELIUM4, Tier.DIRAC);
+        org.ritzwerk.atom.Species heII = org.ritzwerk.atom.Species.parse("He II");
+        LineSources once = LineSources.none().withHydrogenLike(heII, model);
+        IllegalArgumentException twice = org.junit.jupiter.api.Assertions.assertThrows(
+                IllegalArgumentException.class, () -> once.withHydrogenLike(heII, model));
+        assertTrue(twice.getMessage().startsWith("He II is a source already"), twice.getMessage());
+        LineSet set = LineQuery.defaults().withWindowHz(4e14, 8e14).run(once);
+        LineSources withSet = once.withLineSet(set);
+        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class, () -> withSet.withLineSet(set));
+        assertEquals(2, withSet.size(), "a model and a line set of one species are two sources");
+    }
+
     @Test
     void everyTierOfAOneElectronIonGivesTheGeneratorsColumns() {
         for (Tier tier : Tier.values()) {

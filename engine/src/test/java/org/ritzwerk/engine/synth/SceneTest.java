@@ -33,6 +33,19 @@ class SceneTest {
     private static final HydrogenLikeModel H = HydrogenLikeModel.of(PROTON, Tier.DIRAC);
     private static final HydrogenLikeModel HE_II = HydrogenLikeModel.of(ALPHA, Tier.DIRAC);
 
+    /** Null settings are refused where they are given, naming them (they failed later inside build()). */
+    @Test
+    void nullSettingsAreRefusedWhereGiven() {
+        PixelGrid grid = PixelGrid.linear(400, 700, 100);
+        Scene.Builder b = Scene.builder(grid);
+        for (org.junit.jupiter.api.function.Executable call : new org.junit.jupiter.api.function.Executable[] {
+            () -> Scene.builder(null), () -> b.medium(null), () -> b.instrument(null), () -> b.continuum(null, 5),
+            () -> b.hydrogenLike(null, H, 1), () -> b.hydrogenLike(Species.parse("H I"), null, 1)}) {
+            NullPointerException e = assertThrows(NullPointerException.class, call);
+            assertTrue(e.getMessage() != null && !e.getMessage().isBlank(), "the argument is named");
+        }
+    }
+
     @Test
     void everyLineWellInsideTheGridPutsItsCountsIntoThePixels() {
         // Gaussian-only lines, far from the ends: the pixel sum of the expected spectrum is the
