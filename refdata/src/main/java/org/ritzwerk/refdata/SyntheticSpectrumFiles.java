@@ -70,20 +70,21 @@ public final class SyntheticSpectrumFiles {
      * Writes the spectrum as CSV.
      *
      * @param spectrum    the spectrum
-     * @param medium      its axis medium
+     * @param medium      its axis medium: the medium the scene was built with (the spectrum does
+     *                    not carry it; another medium labels the same numbers wrongly)
      * @param kind        how the pixels are spaced ({@code linear}, {@code log}, {@code dispersion ...})
      * @param description the scene, in order: keys one line of text without {@code :} and not
      *                    {@code axis}; values text, numbers or booleans, written with
      *                    {@link String#valueOf(Object)}, one line each
      * @param out         where to write; not closed
      * @throws IOException when writing fails
-     * @throws IllegalArgumentException when a value is not finite (naming the pixel) or a
-     *         description entry cannot be written as one header line
+     * @throws IllegalArgumentException when a value is not finite (naming the pixel), the grid kind is
+     *         none of those, or a description entry cannot be written as one header line
      */
     public static void writeCsv(SyntheticSpectrum spectrum, Medium medium, String kind, Map<String, ?> description,
             Writer out) throws IOException {
         checkDescription(description);
-        checkLine("grid kind", kind);
+        checkKind(kind);
         double[] expected = spectrum.expectedCounts();
         double[] counts = spectrum.counts();
         checkPixels(expected, counts);
@@ -118,7 +119,7 @@ public final class SyntheticSpectrumFiles {
     public static void writeJson(SyntheticSpectrum spectrum, Medium medium, String kind, Map<String, ?> description,
             List<String> notes, Writer out) throws IOException {
         checkDescription(description);
-        checkLine("grid kind", kind);
+        checkKind(kind);
         double[] expected = spectrum.expectedCounts();
         double[] counts = spectrum.counts();
         checkPixels(expected, counts);
@@ -229,6 +230,15 @@ public final class SyntheticSpectrumFiles {
                         + text + "'");
             }
             checkLine("description entry '" + key + "'", text);
+        }
+    }
+
+    /** The grid kinds a spectrum file names: linear, log, or "dispersion" and its coefficients. */
+    private static void checkKind(String kind) {
+        checkLine("grid kind", java.util.Objects.requireNonNull(kind, "kind"));
+        if (!kind.equals("linear") && !kind.equals("log") && !kind.startsWith("dispersion ")) {
+            throw new IllegalArgumentException("grid kind must be linear, log or \"dispersion\" followed by its "
+                    + "coefficients, got '" + kind + "'");
         }
     }
 

@@ -134,6 +134,13 @@ class CalibrationRecordReadBackTest {
         // The solution-based writer is the record writer.
         assertEquals(CalibrationFiles.toJson(fitted, 1024, "invented pairs", labels),
                 CalibrationFiles.toJson(fitted.toRecord(1024, "invented pairs", labels, List.of())));
+        // a detector shorter than the fitted range was written and read back without a word
+        IllegalArgumentException short100 = assertThrows(
+                IllegalArgumentException.class, () -> CalibrationFiles.write(dir.resolve("short.json"), fitted, 100,
+                        "invented pairs", labels));
+        assertTrue(short100.getMessage().startsWith("a detector of 100 pixels (0 to 99) cannot hold"),
+                short100.getMessage());
+        assertTrue(!java.nio.file.Files.exists(dir.resolve("short.json")));
     }
 
     @Test

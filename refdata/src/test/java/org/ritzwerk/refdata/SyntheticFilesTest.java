@@ -67,6 +67,10 @@ class SyntheticFilesTest {
                 Medium.air(), "linear", Map.of("temperature-k", Double.POSITIVE_INFINITY), List.of(), out));
         assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(spectrum(1, 0, "x"),
                 Medium.air(), "linear", Map.of("lines", "a\nb"), out));
+        // a grid kind the spectrum files do not know was written as "banana pixels"
+        assertTrue(assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(
+                spectrum(1, 0, "x"), Medium.air(), "banana", Map.of(), out)).getMessage()
+                .contains("grid kind must be linear, log or"));
         assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(spectrum(1, 0, "x"),
                 Medium.air(), "linear", Map.of("axis", "mine"), out));
         assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(spectrum(1, 0, "x"),

@@ -189,11 +189,15 @@ public final class DispersionSolution {
      * @param lineLabels  one label per fitted pair ({@link #size()} of them)
      * @param saturated   pairs left out of the fit because their peaks saturated
      * @return the record
-     * @throws IllegalArgumentException when the labels do not match the pairs, or a figure is not
-     *         finite where the record needs it to be
+     * @throws IllegalArgumentException when the labels do not match the pairs, the detector is too
+     *         short to hold the fitted range, or a figure is not finite where the record needs it to be
      */
     public CalibrationRecord toRecord(int pixels, String description, List<String> lineLabels,
             List<CalibrationRecord.SaturatedLine> saturated) {
+        if (pixels - 1 < highestPixel) {
+            throw new IllegalArgumentException("a detector of " + pixels + " pixels (0 to " + (pixels - 1) + ") cannot "
+                    + "hold the solution's fitted range, up to pixel " + highestPixel);
+        }
         if (lineLabels.size() != size()) {
             throw new IllegalArgumentException(size() + " fitted pairs but " + lineLabels.size() + " labels");
         }
