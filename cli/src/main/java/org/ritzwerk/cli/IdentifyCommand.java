@@ -270,10 +270,12 @@ final class IdentifyCommand implements Callable<Integer> {
      */
     private static void refuseZeroUncertainties(PeakFiles.Peaks read, Path file) {
         List<String> bad = new java.util.ArrayList<>();
-        for (int i = 0; i < read.size(); i++) {
-            double u = read.uncertainties()[i];
+        double[] uncertainties = read.uncertainties();
+        int[] fileLines = read.lines();
+        for (int i = 0; i < uncertainties.length; i++) {
+            double u = uncertainties[i];
             if (u == 0 || Double.isNaN(u)) {
-                bad.add(file + ":" + read.lines()[i] + ": the peak's uncertainty is "
+                bad.add(file + ":" + fileLines[i] + ": the peak's uncertainty is "
                         + (u == 0 ? "0, which can never match" : "not given, which cannot be weighed"));
             }
         }
@@ -394,7 +396,9 @@ final class IdentifyCommand implements Callable<Integer> {
         // the normalised residual is the wavelength's; in a unit that falls as wavelength rises (cm-1,
         // Hz, eV) the position residual has the other sign, and res/sigma must share it
         double residualSign = unit.kind() == org.ritzwerk.quantity.Kind.WAVELENGTH ? 1 : -1;
-        for (int i = 0; i < read.size(); i++) {
+        double[] positions = read.positions();
+        int[] fileLines = read.lines();
+        for (int i = 0; i < positions.length; i++) {
             int j = result.line(i);
             String status = result.status(i) == Identification.MATCHED ? "matched"
                     : result.status(i) == Identification.AMBIGUOUS ? "ambiguous" : "unexplained";
@@ -404,9 +408,9 @@ final class IdentifyCommand implements Callable<Integer> {
                         linePositions);
                 linePosition = linePositions[0];
             }
-            table.add(i + 1, read.lines()[i], read.positions()[i], status, j < 0 ? null : lines.species(j).notation(),
+            table.add(i + 1, fileLines[i], positions[i], status, j < 0 ? null : lines.species(j).notation(),
                     j < 0 ? null : lines.label(j), linePosition,
-                    linePosition == null ? null : read.positions()[i] - linePosition,
+                    linePosition == null ? null : positions[i] - linePosition,
                     j < 0 ? null : residualSign * result.normalizedResidual(i));
         }
         table.finish();

@@ -63,6 +63,67 @@ public final class PeakFiles {
     public record Peaks(String id, Unit unit, Medium medium, double[] positions, double[] uncertainties,
             double[] intensities, double[] widths, int[] lines) {
 
+        /** Copies the arrays: the record is immutable, its accessors return copies. */
+        public Peaks {
+            positions = positions.clone();
+            uncertainties = uncertainties.clone();
+            intensities = intensities.clone();
+            widths = widths.clone();
+            lines = lines.clone();
+        }
+
+        /** @return a copy of the positions */
+        @Override
+        public double[] positions() {
+            return positions.clone();
+        }
+
+        /** @return a copy of the uncertainties (NaN where not given) */
+        @Override
+        public double[] uncertainties() {
+            return uncertainties.clone();
+        }
+
+        /** @return a copy of the intensities (NaN where not given) */
+        @Override
+        public double[] intensities() {
+            return intensities.clone();
+        }
+
+        /** @return a copy of the widths (NaN where not given) */
+        @Override
+        public double[] widths() {
+            return widths.clone();
+        }
+
+        /** @return a copy of the 1-based file lines */
+        @Override
+        public int[] lines() {
+            return lines.clone();
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof Peaks p && java.util.Objects.equals(id, p.id) && unit.equals(p.unit)
+                    && java.util.Objects.equals(medium, p.medium) && java.util.Arrays.equals(positions, p.positions)
+                    && java.util.Arrays.equals(uncertainties, p.uncertainties)
+                    && java.util.Arrays.equals(intensities, p.intensities) && java.util.Arrays.equals(widths, p.widths)
+                    && java.util.Arrays.equals(lines, p.lines);
+        }
+
+        @Override
+        public int hashCode() {
+            return java.util.Objects.hash(id, unit, medium, java.util.Arrays.hashCode(positions),
+                    java.util.Arrays.hashCode(uncertainties), java.util.Arrays.hashCode(intensities),
+                    java.util.Arrays.hashCode(widths), java.util.Arrays.hashCode(lines));
+        }
+
+        @Override
+        public String toString() {
+            return "Peaks[" + id + ", " + positions.length + " peaks in " + unit.symbol()
+                    + (medium == null ? "" : " " + medium) + "]";
+        }
+
         /** @return the number of peaks */
         public int size() {
             return positions.length;
@@ -205,14 +266,17 @@ public final class PeakFiles {
             }
         }
         List<String[]> rows = new ArrayList<>();
-        for (int k = 0; k < peaks.size(); k++) {
-            if (!(peaks.positions()[k] > 0) || Double.isInfinite(peaks.positions()[k])) {
+        double[] positions = peaks.positions();
+        double[] uncertainties = peaks.uncertainties();
+        double[] intensities = peaks.intensities();
+        double[] widths = peaks.widths();
+        for (int k = 0; k < positions.length; k++) {
+            if (!(positions[k] > 0) || Double.isInfinite(positions[k])) {
                 throw new IllegalArgumentException("peak " + k + ": position must be finite and positive, got "
-                        + peaks.positions()[k]);
+                        + positions[k]);
             }
-            rows.add(new String[] {Double.toString(peaks.positions()[k]), number(k, "uncertainty",
-                peaks.uncertainties()[k]), number(k, "intensity", peaks.intensities()[k]),
-                number(k, "width", peaks.widths()[k]), ""});
+            rows.add(new String[] {Double.toString(positions[k]), number(k, "uncertainty", uncertainties[k]),
+                number(k, "intensity", intensities[k]), number(k, "width", widths[k]), ""});
         }
         return TabularFiles.writeCsv(SPEC, header, rows);
     }

@@ -61,6 +61,58 @@ public final class SpectrumFiles {
     public record Spectrum(String source, double[] counts, double[] sigmas, double[] wavelengths,
             double[] expectedCounts, Map<String, String> header) {
 
+        /** Copies the arrays and the header: the record is immutable, its accessors return copies. */
+        public Spectrum {
+            counts = counts.clone();
+            sigmas = sigmas == null ? null : sigmas.clone();
+            wavelengths = wavelengths == null ? null : wavelengths.clone();
+            expectedCounts = expectedCounts == null ? null : expectedCounts.clone();
+            header = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(header));
+        }
+
+        /** @return a copy of the counts per pixel */
+        @Override
+        public double[] counts() {
+            return counts.clone();
+        }
+
+        /** @return a copy of the standard uncertainties per pixel, or null */
+        @Override
+        public double[] sigmas() {
+            return sigmas == null ? null : sigmas.clone();
+        }
+
+        /** @return a copy of the wavelengths per pixel, or null */
+        @Override
+        public double[] wavelengths() {
+            return wavelengths == null ? null : wavelengths.clone();
+        }
+
+        /** @return a copy of the expected counts per pixel, or null */
+        @Override
+        public double[] expectedCounts() {
+            return expectedCounts == null ? null : expectedCounts.clone();
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof Spectrum s && java.util.Objects.equals(source, s.source)
+                    && java.util.Arrays.equals(counts, s.counts) && java.util.Arrays.equals(sigmas, s.sigmas)
+                    && java.util.Arrays.equals(wavelengths, s.wavelengths)
+                    && java.util.Arrays.equals(expectedCounts, s.expectedCounts) && header.equals(s.header);
+        }
+
+        @Override
+        public int hashCode() {
+            return java.util.Objects.hash(source, java.util.Arrays.hashCode(counts), java.util.Arrays.hashCode(sigmas),
+                    java.util.Arrays.hashCode(wavelengths), java.util.Arrays.hashCode(expectedCounts), header);
+        }
+
+        @Override
+        public String toString() {
+            return "Spectrum[" + source + ", " + counts.length + " pixels]";
+        }
+
         /**
          * A spectrum without expected counts.
          *
@@ -104,14 +156,15 @@ public final class SpectrumFiles {
         text.append("pixel,wavelength_nm,wavelength_sigma_nm,counts").append(spectrum.sigmas() != null
                 ? ",counts_sigma" : "").append('\n');
         double[] counts = spectrum.counts();
+        double[] countSigmas = spectrum.sigmas();
         for (int p = 0; p < n; p++) {
             text.append(p).append(',').append(String.format(Locale.ROOT, "%.6f", nm[p])).append(',');
             if (!Double.isNaN(sigma[p])) {
                 text.append(String.format(Locale.ROOT, "%.2g", sigma[p]));
             }
             text.append(',').append(counts[p]);
-            if (spectrum.sigmas() != null) {
-                text.append(',').append(spectrum.sigmas()[p]);
+            if (countSigmas != null) {
+                text.append(',').append(countSigmas[p]);
             }
             text.append('\n');
         }

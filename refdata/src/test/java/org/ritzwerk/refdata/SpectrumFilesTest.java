@@ -26,6 +26,28 @@ class SpectrumFilesTest {
         assertEquals("invented 8-pixel strip", s.header().get("detector"));
     }
 
+    /**
+     * What a reader returns cannot be changed through its accessors, and two reads of one file are
+     * equal (the records exposed their arrays and header, and compared them by identity).
+     */
+    @Test
+    void readResultsAreImmutableAndEqualByContent() throws URISyntaxException {
+        SpectrumFiles.Spectrum s = SpectrumFiles.read(fixture("spectrum-good.csv"));
+        s.counts()[0] = -1;
+        assertEquals(10, s.counts()[0]);
+        assertThrows(UnsupportedOperationException.class, () -> s.header().put("x", "y"));
+        assertEquals(s, SpectrumFiles.read(fixture("spectrum-good.csv")));
+        assertEquals(s.hashCode(), SpectrumFiles.read(fixture("spectrum-good.csv")).hashCode());
+        String text = "# ritzwerk-peaks 1\n# id: p\n# title: t\n# source: invented\n# provenance: measured\n"
+                + "# version: 1\n# position-unit: nm\n# medium: air\nposition,uncertainty\n500.1,0.01\n600.2,\n";
+        PeakFiles.Peaks peaks = PeakFiles.read(text, "p.csv");
+        peaks.positions()[0] = 1;
+        peaks.lines()[0] = 99;
+        assertEquals(500.1, peaks.positions()[0]);
+        assertEquals(10, peaks.lines()[0]);
+        assertEquals(peaks, PeakFiles.read(text, "p.csv"));
+    }
+
     @Test
     void readsJson() throws URISyntaxException {
         SpectrumFiles.Spectrum s = SpectrumFiles.read(fixture("spectrum-good.json"));

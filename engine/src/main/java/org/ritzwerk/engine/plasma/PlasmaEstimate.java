@@ -105,6 +105,45 @@ public final class PlasmaEstimate {
                 throw new IllegalArgumentException("positions, intensities and widths need one value per peak: "
                         + positions.length + ", " + intensities.length + ", " + widths.length);
             }
+            positions = positions.clone();
+            intensities = intensities.clone();
+            widths = widths.clone();
+        }
+
+        /** @return a copy of the positions */
+        @Override
+        public double[] positions() {
+            return positions.clone();
+        }
+
+        /** @return a copy of the intensities */
+        @Override
+        public double[] intensities() {
+            return intensities.clone();
+        }
+
+        /** @return a copy of the widths */
+        @Override
+        public double[] widths() {
+            return widths.clone();
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof Peaks p && unit.equals(p.unit) && Objects.equals(medium, p.medium)
+                    && java.util.Arrays.equals(positions, p.positions) && java.util.Arrays.equals(intensities,
+                            p.intensities) && java.util.Arrays.equals(widths, p.widths);
+        }
+
+        @Override
+        public int hashCode() {
+            return Objects.hash(unit, medium, java.util.Arrays.hashCode(positions),
+                    java.util.Arrays.hashCode(intensities), java.util.Arrays.hashCode(widths));
+        }
+
+        @Override
+        public String toString() {
+            return "Peaks[" + positions.length + " peaks in " + unit.symbol() + "]";
         }
     }
 
@@ -173,9 +212,9 @@ public final class PlasmaEstimate {
         Objects.requireNonNull(lines, "lines");
         Objects.requireNonNull(candidates, "candidates");
         PeakList identified = identification.peaks();
-        if (peaks.positions().length != identified.size()) {
+        if (peaks.positions.length != identified.size()) {
             throw new IllegalArgumentException("the identification has " + identified.size() + " peaks, the plasma "
-                    + "estimate was given " + peaks.positions().length + "; give it the peaks that were identified");
+                    + "estimate was given " + peaks.positions.length + "; give it the peaks that were identified");
         }
         PeakList given = PeakList.of(peaks.positions(), null, null, peaks.unit(), peaks.medium());
         for (int i = 0; i < identified.size(); i++) {
@@ -185,7 +224,7 @@ public final class PlasmaEstimate {
             }
         }
         Map<Species, List<int[]>> bySpecies = new LinkedHashMap<>();
-        for (int i = 0; i < peaks.positions().length; i++) {
+        for (int i = 0; i < peaks.positions.length; i++) {
             int j = identification.line(i);
             if (identification.status(i) != Identification.MATCHED || j < 0) {
                 continue;
@@ -199,7 +238,7 @@ public final class PlasmaEstimate {
         for (Map.Entry<Species, List<int[]>> entry : bySpecies.entrySet()) {
             List<double[]> points = new ArrayList<>();
             for (int[] pair : entry.getValue()) {
-                double intensity = peaks.intensities()[pair[0]];
+                double intensity = peaks.intensities[pair[0]];
                 if (!(intensity > 0)) {
                     continue;
                 }
@@ -246,7 +285,7 @@ public final class PlasmaEstimate {
 
     private Row density(Peaks peaks, int i, Species species, String label, Candidates.Multiplet m,
             BalmerStark.Line balmer, double t) {
-        double width = peaks.widths()[i];
+        double width = peaks.widths[i];
         if (Double.isNaN(width)) {
             return noDensity(species, label, "the peak states no width");
         }
@@ -254,9 +293,9 @@ public final class PlasmaEstimate {
             return noDensity(species, label, "widths are read in wavelength units only");
         }
         double[] nm = new double[1];
-        SpectralArrays.convert(new double[] {peaks.positions()[i]}, peaks.unit(), peaks.medium(), Unit.NANOMETRE,
+        SpectralArrays.convert(new double[] {peaks.positions[i]}, peaks.unit(), peaks.medium(), Unit.NANOMETRE,
                 peaks.medium() == null ? Medium.vacuum() : peaks.medium(), nm);
-        double fwhmNm = width * nm[0] / peaks.positions()[i];
+        double fwhmNm = width * nm[0] / peaks.positions[i];
         boolean assumed = Double.isNaN(t);
         double kelvin = assumed ? DEFAULT_TEMPERATURE : t;
         double mass = m.model().nucleus().massKg() + PhysicalConstants.ELECTRON_MASS.value();
