@@ -78,6 +78,7 @@ R_INF_PER_CM = 109737.31568160
 ELECTRON_MASS_U = 5.48579909065e-4
 HARTREE_PER_CM = 2 * R_INF_PER_CM
 
+FINE_STRUCTURE_ALPHA = 7.2973525693e-3   # CODATA 2018
 TOLERANCE_PER_CM = 0.1
 REGULARITY_PER_CM = 1.0
 
@@ -657,6 +658,57 @@ def split_unresolved_p(symbol, levels, limit, r_m, report=None):
     return out
 
 
+# Series whose paper gives one set of defects for both J of a term (Na, Li nd; Na, K, Li nf): the
+# two J would be degenerate, while the fine-structure splitting, E(l + 1/2) - E(l - 1/2), falls as
+# n*^-3 and so is a constant difference of the defects, D = d0(l + 1/2) - d0(l - 1/2) =
+# -dE n*^3 / (2 R_M) (common practice).  D from the measured levels where a doublet's splitting is
+# printed to 10 % or better (the highest such n: Na 6d, inverted), else the one-electron value
+# -alpha^2 / (2 l (l + 1)) (Li d and every f: within the printed digits of the measured Li 3d-6d and
+# the unresolved nf).  The paper's d0 is taken as the (2J + 1)-weighted centroid's.
+J_SPLIT_PRECISION = 0.10
+J_SPLIT_MARK = "; d0 split by J here"
+
+
+def split_degenerate_j(atom_id, symbol, series, levels_text, report=None):
+    """The series with each pair of identical J defects split as above."""
+    partner = SHARED.get(atom_id, atom_id)
+    limit, r_m = LIMITS[partner][0], rydberg_per_cm(MASS_U[partner])
+    printed = {(n, l, tj): e for n, l, tj, e in parse_levels(levels_text)}
+    coefficients_of = {(l, tj): c for l, tj, c, paper in series}
+    out = []
+    for l, two_j, coefficients, paper in series:
+        other = coefficients_of.get((l, 4 * l - two_j))
+        if l == 0 or other is None or list(other) != list(coefficients):
+            out.append((l, two_j, coefficients, paper))
+            continue
+        measured = None
+        for n in sorted({n for (n, ll, tj) in printed if ll == l}, reverse=True):
+            low, high = printed.get((n, l, 2 * l - 1)), printed.get((n, l, 2 * l + 1))
+            if low is None or high is None:
+                continue
+            split = float(high) - float(low)
+            u = math.hypot(0.5 * last_digit_unit(low), 0.5 * last_digit_unit(high))
+            if split != 0 and u <= J_SPLIT_PRECISION * abs(split):
+                centroid = (2 * l * float(low) + (2 * l + 2) * float(high)) / (4 * l + 2)
+                n_star = math.sqrt(r_m / (limit - centroid))
+                measured = (n, split, u, -split * n_star ** 3 / (2 * r_m))
+                break
+        if measured is not None:
+            n, split, u, d = measured
+            how = "from the measured %d%s splitting %+.3f(%d) cm-1" % (n, L_LETTERS[l], split, round(u * 1e3))
+        else:
+            d = -FINE_STRUCTURE_ALPHA ** 2 / (2 * l * (l + 1))
+            how = "the one-electron value -alpha^2 / (2 l (l + 1))"
+        shift = 2 * l * d / (4 * l + 2) if two_j == 2 * l + 1 else -(2 * l + 2) * d / (4 * l + 2)
+        split_coefficients = [round(coefficients[0] + shift, 9)] + list(coefficients[1:])
+        if report is not None and two_j == 2 * l + 1:
+            report.append("# j-split %s %s: d0(%s%d/2) - d0(%s%d/2) = %.3e, %s; the splitting at n = 30 is %.2f MHz"
+                          % (atom_id, L_LETTERS[l], L_LETTERS[l], 2 * l + 1, L_LETTERS[l], 2 * l - 1, d, how,
+                             -2 * r_m * d / (30 - coefficients[0]) ** 3 * C / 1e4))
+        out.append((l, two_j, split_coefficients, paper + J_SPLIT_MARK + " (" + how + ")"))
+    return out
+
+
 def j_text(two_j):
     return "%d/2" % two_j
 
@@ -839,13 +891,18 @@ def main():
               "defects (lowest member left out), cm^-1; ! marks one above %.2f cm^-1" % REGULARITY_PER_CM,
               "# atom  series  n  measured  formula  formula-measured  allowed  regularity-residual"]
     problems = []
-    second_values = {}
+    atoms = []
     for atom_id, symbol, z, a, series, levels_text, d_line_source, version in ATOMS:
+        split = split_degenerate_j(atom_id, symbol, series, levels_text,
+                                   None if atom_id in SHARED else report)
+        atoms.append((atom_id, symbol, z, a, split, levels_text, d_line_source, version))
+    second_values = {}
+    for atom_id, symbol, z, a, series, levels_text, d_line_source, version in atoms:
         if atom_id in SHARED:
             continue
         for l, two_j, coefficients, paper in series:
             second_values.setdefault((symbol, l, two_j), []).append((atom_id, coefficients, paper))
-    for atom_id, symbol, z, a, series, levels_text, d_line_source, version in ATOMS:
+    for atom_id, symbol, z, a, series, levels_text, d_line_source, version in atoms:
         r_m = rydberg_per_cm(MASS_U[atom_id])
         limit, limit_provenance, limit_source, limit_second = LIMITS[atom_id]
         printed = parse_levels(levels_text)
@@ -956,7 +1013,7 @@ def main():
             report.append("# check 3 %s: %s" % (atom_id, core_check))
         # quantum-defect file
         species = "%s-%d I" % (symbol, a)
-        papers = sorted({s[3].split(" (measured")[0] for s in series})
+        papers = sorted({s[3].split(" (measured")[0].split(J_SPLIT_MARK)[0] for s in series})
         out = ["# ritzwerk-quantum-defects 1",
                "# id: quantum-defects-%s" % atom_id,
                "# title: %s quantum defects (modified Rydberg-Ritz) for l = 0..3" % species,
