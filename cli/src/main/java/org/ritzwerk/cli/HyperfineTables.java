@@ -9,7 +9,6 @@ import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hyperfine.HyperfineComponent;
 import org.ritzwerk.engine.hyperfine.ZeemanComponent;
-import org.ritzwerk.engine.hyperfine.ZeemanStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.refdata.AlkaliHyperfine;
 import org.ritzwerk.refdata.DataContext;
@@ -35,11 +34,10 @@ final class HyperfineTables {
      * @param fieldTesla the field in tesla, or null for the zero-field F -> F' components
      * @param air        whether to add each component's wavelength in standard air
      * @param out        where the table goes
-     * @param err        where notes go
      * @param format     the table format
      */
     static void print(DataContext context, List<AlkaliAtom> atoms, Double fieldTesla, boolean air, PrintWriter out,
-            PrintWriter err, Table.Format format) {
+            Table.Format format) {
         AlkaliHyperfine data = context.alkaliHyperfine();
         for (AlkaliAtom atom : atoms) {
             if (data.dLines(atom.species()).isEmpty()) {
@@ -72,9 +70,6 @@ final class HyperfineTables {
         for (AlkaliAtom atom : atoms) {
             Species species = atom.species();
             State ground = atom.groundState();
-            if (zeeman) {
-                noteFineStructureMixing(atom, fieldTesla, err);
-            }
             for (AlkaliHyperfine.DLine d : data.dLines(species)) {
                 State upper = State.of(ground.n(), 1, d.twoJUpper());
                 double centroid = atom.frequencyHz(ground, upper);
@@ -112,19 +107,6 @@ final class HyperfineTables {
         row.add(vacuumMetres * 1e9);
         if (air) {
             row.add(AlkaliTables.air(vacuumMetres) * 1e9);
-        }
-    }
-
-    /** Notes the fine-structure mixing the components leave out where it exceeds 0.1 MHz. */
-    private static void noteFineStructureMixing(AlkaliAtom atom, double fieldTesla, PrintWriter err) {
-        State ground = atom.groundState();
-        double splitting = atom.frequencyHz(State.of(ground.n(), 1, 1), State.of(ground.n(), 1, 3));
-        double left = ZeemanStructure.fineStructureMixingHertz(1, splitting, fieldTesla);
-        if (left > 1e5) {
-            err.println(String.format(java.util.Locale.ROOT, "note: %s %dp: each fine-structure level is "
-                    + "diagonalised on its own; at %s T the field's mixing of p1/2 and p3/2 (%.4g GHz apart) moves "
-                    + "the m_J = +-1/2 levels by about %.3g MHz, left out of these components", atom.species()
-                    .notation(), ground.n(), fieldTesla, splitting / 1e9, left / 1e6));
         }
     }
 }

@@ -93,8 +93,8 @@ final class LinesCommand implements Callable<Integer> {
 
     @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA",
             description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla (0 to "
-                    + "1000; each level diagonalised on its own, up to the hyperfine Paschen-Back regime; a note "
-                    + "gives the size of the fine-structure mixing left out where it exceeds 0.1 MHz).")
+                    + "1000; the ground level and the whole first p term diagonalised, so p1/2 and p3/2 mix as the "
+                    + "field grows, up to the Paschen-Back regime).")
     Double fieldTesla;
 
     @Option(names = "--intercombination",
@@ -233,7 +233,7 @@ final class LinesCommand implements Callable<Integer> {
             OptionRules.range(HyperfineTables.FIELD_OPTION, fieldTesla, 0, true, 1000, "a field of 0 to 1000 T");
         }
         HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, AxisMedium.isAir(medium),
-                spec.commandLine().getOut(), spec.commandLine().getErr(), format);
+                spec.commandLine().getOut(), format);
         return 0;
     }
 

@@ -371,7 +371,10 @@ public final class AlkaliHyperfine {
     /**
      * The m_F-resolved components of a line in a magnetic field, from the diagonalised
      * hyperfine-Zeeman Hamiltonians of both levels; g_J by the Lande formula (CODATA 2018 electron g
-     * factor), g_I from the nuclear moment of the context's nuclear data.
+     * factor), g_I from the nuclear moment of the context's nuclear data. For a line from an s1/2
+     * level to a p level whose fine-structure partner has constants too (the D lines), the p term is
+     * diagonalised as a whole ({@link ZeemanStructure#termComponents}), so the field's mixing of
+     * p1/2 and p3/2 is in; otherwise each level on its own ({@link ZeemanStructure#components}).
      *
      * @param context    the data context
      * @param species    an isotope with constants for both levels
@@ -387,6 +390,17 @@ public final class AlkaliHyperfine {
         Nucleus nucleus = context.nucleus(species);
         double gI = nucleus.magneticMoment().isPresent() && p.twoI > 0
                 ? ZeemanStructure.nuclearG(nucleus.magneticMoment().getAsDouble(), p.twoI) : 0;
+        if (lower.l() == 0 && upper.l() == 1) {
+            State p12 = State.of(upper.n(), 1, 1);
+            State p32 = State.of(upper.n(), 1, 3);
+            Optional<LevelConstants> low = constants(species, p12);
+            Optional<LevelConstants> high = constants(species, p32);
+            if (low.isPresent() && high.isPresent()) {
+                AlkaliAtom atom = context.alkaliAtom(species);
+                return ZeemanStructure.termComponents(p.twoI, p.lower, 1, low.get().constants(), high.get().constants(),
+                        atom.frequencyHz(p12, p32), upper.twoJ(), gI, p.centroid, fieldTesla);
+            }
+        }
         return ZeemanStructure.components(p.twoI, lower.twoJ(), p.lower, ZeemanStructure.landeG(lower.l(), lower.twoJ()),
                 upper.twoJ(), p.upper, ZeemanStructure.landeG(upper.l(), upper.twoJ()), gI, p.centroid, fieldTesla);
     }

@@ -39,9 +39,11 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * (m_e / m_p) / I from a nuclear moment (the bare nucleus': the atom's electrons shield it, and the
  * g_I measured in the atom differs by a few tenths of a per cent, a few Hz per unit of m_F at 1e-4 T).
  *
- * <p><b>Limit</b>: each level is diagonalised on its own, so the field's mixing of the two
- * fine-structure levels of a term (the fine-structure Paschen-Back effect) is left out;
- * {@link #fineStructureMixingHertz} gives its size. The hyperfine Paschen-Back regime is covered.
+ * <p><b>Levels and terms</b>: {@link #eigenstates} and {@link #components} diagonalise each level
+ * on its own, which covers the hyperfine Paschen-Back regime but leaves out the field's mixing of
+ * the two fine-structure levels of a term ({@link #fineStructureMixingHertz} gives its size);
+ * {@link #termComponents} diagonalises a p term as a whole, up to the fine-structure Paschen-Back
+ * regime, for the lines from an s1/2 level (the D lines).
  */
 public final class ZeemanStructure {
 
@@ -283,6 +285,267 @@ public final class ZeemanStructure {
         }
         out.sort(Comparator.comparingDouble(ZeemanComponent::frequencyHertz));
         return List.copyOf(out);
+    }
+
+    /**
+     * The m_F-resolved components of one fine-structure line from an s1/2 level to a term of
+     * orbital momentum {@code lUpper} (the D1 or D2 line for p), with the upper term diagonalised as
+     * a whole: both of its J levels in one |J m_J m_I> basis, their splitting, each level's hyperfine
+     * operator, and the Zeeman operator mu_B B (L_z + g_S S_z) + g_I mu_B B I_z, whose S_z couples the
+     * two J (from the Clebsch-Gordan coefficients of l and s = 1/2; common practice). The hyperfine
+     * coupling between the two J is left out (a few MHz against splittings of GHz to THz). This
+     * covers the field's mixing of the two J that {@link #components} leaves out
+     * ({@link #fineStructureMixingHertz}), up to the fine-structure Paschen-Back regime. Each upper
+     * state belongs to the J level it connects to at zero field (by energy order within its m_F);
+     * a component's share is of that line's strength, and each line's shares sum to 1 at any field
+     * (from the whole s1/2 level every p state takes the same strength). The dipole amplitudes
+     * come from the orbital 3j symbols in the uncoupled basis, the same Clebsch-Gordan phases as the
+     * Zeeman operator.
+     *
+     * @param twoI               2 I, 0 to 40
+     * @param lower              A (and B) of the s1/2 level
+     * @param lUpper             the upper term's l, 1 to 10
+     * @param upperLow           A and B of its J = l - 1/2 level
+     * @param upperHigh          A and B of its J = l + 1/2 level
+     * @param fineStructureHertz E(l + 1/2) - E(l - 1/2), Hz; finite (negative for an inverted term)
+     * @param twoJUpper          which line: 2J of its upper level, 2l - 1 or 2l + 1
+     * @param gI                 g_I in units of mu_B
+     * @param centroidHertz      that line's hyperfine-free centroid frequency, Hz
+     * @param fieldTesla         the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
+     * @return every component of the line whose share exceeds 1e-12, by frequency
+     */
+    public static List<ZeemanComponent> termComponents(int twoI, HyperfineConstants lower, int lUpper,
+            HyperfineConstants upperLow, HyperfineConstants upperHigh, double fineStructureHertz, int twoJUpper,
+            double gI, double centroidHertz, double fieldTesla) {
+        Objects.requireNonNull(lower, "lower");
+        Objects.requireNonNull(upperLow, "upperLow");
+        Objects.requireNonNull(upperHigh, "upperHigh");
+        checkField(fieldTesla);
+        if (lUpper < 1 || lUpper > 10 || twoJUpper != 2 * lUpper - 1 && twoJUpper != 2 * lUpper + 1
+                || !Double.isFinite(fineStructureHertz) || !Double.isFinite(centroidHertz) || !Double.isFinite(gI)) {
+            throw new IllegalArgumentException("a term component needs l = 1 to 10, 2J' = 2l +- 1 and finite "
+                    + "frequencies; got l = " + lUpper + ", 2J' = " + twoJUpper + ", " + fineStructureHertz + " Hz, "
+                    + centroidHertz + " Hz, g_I = " + gI);
+        }
+        if (twoJUpper > 3) {
+            // the lower level is s1/2: only J' = 1/2 and 3/2 are reached
+            throw new IllegalArgumentException("no electric-dipole line from s1/2 to 2J' = " + twoJUpper);
+        }
+        if (lUpper != 1) {
+            throw new IllegalArgumentException("an s1/2 level has electric-dipole lines to p terms only, got l = "
+                    + lUpper);
+        }
+        HyperfineStructure.checkSpins(twoI, 1);
+        List<ZeemanState> lo = eigenstates(twoI, 1, lower, electronSpinG(), gI, fieldTesla);
+        Term term = new Term(twoI, lUpper, upperLow, upperHigh, fineStructureHertz, gI, fieldTesla);
+        double lowCentroid = twoJUpper == 2 * lUpper - 1 ? centroidHertz : centroidHertz - fineStructureHertz;
+        int nI = twoI + 1;
+        // the total strength of the s -> p multiplet, which no field changes; the line's zero-field part
+        double lineShare = (twoJUpper + 1.0) / (2 * (2 * lUpper + 1));
+        List<ZeemanComponent> out = new ArrayList<>();
+        double total = 0;
+        List<double[]> found = new ArrayList<>();
+        for (ZeemanState l : lo) {
+            double[] a = l.amplitudes();
+            for (int u = 0; u < term.size(); u++) {
+                int twoQ = term.twoMF(u) - l.twoMF();
+                if (Math.abs(twoQ) > 2) {
+                    continue;
+                }
+                double amp = 0;
+                for (int x = 0; x < a.length; x++) {
+                    if (a[x] == 0) {
+                        continue;
+                    }
+                    amp += a[x] * term.dipole(u, twoMJ(x, nI, 1), twoMI(x, nI, twoI), twoQ);
+                }
+                double strength = amp * amp;
+                total += strength;
+                if (term.twoJ(u) == twoJUpper) {
+                    found.add(new double[] {l.twoF(), l.twoMF(), term.twoF(u), term.twoMF(u), twoQ / 2.0,
+                        lowCentroid + term.energyHertz(u) - l.energyHertz(), strength});
+                }
+            }
+        }
+        for (double[] f : found) {
+            double share = f[6] / (total * lineShare);
+            if (share > SHARE_FLOOR) {
+                out.add(new ZeemanComponent((int) f[0], (int) f[1], (int) f[2], (int) f[3], (int) f[4], f[5], share));
+            }
+        }
+        out.sort(Comparator.comparingDouble(ZeemanComponent::frequencyHertz));
+        return List.copyOf(out);
+    }
+
+    /**
+     * A one-electron term l (s = 1/2) with both J levels, diagonalised in a field: basis |J m_J m_I>,
+     * J = l - 1/2 first, then l + 1/2; eigenstates labelled by their zero-field J and F.
+     */
+    private static final class Term {
+        private final int l;
+        private final int[] twoJOf;
+        private final int[] twoMJOf;
+        private final int[] twoMIOf;
+        private final double[] energy;
+        private final int[] twoMF;
+        private final int[] twoJ;
+        private final int[] twoF;
+        private final double[][] vectors;
+
+        Term(int twoI, int l, HyperfineConstants low, HyperfineConstants high, double fineStructure, double gI,
+                double tesla) {
+            this.l = l;
+            int nI = twoI + 1;
+            int nLow = 2 * l * nI;
+            int n = (4 * l + 2) * nI;
+            twoJOf = new int[n];
+            twoMJOf = new int[n];
+            twoMIOf = new int[n];
+            double[][] h = new double[n][n];
+            for (int block = 0; block < 2; block++) {
+                int tj = block == 0 ? 2 * l - 1 : 2 * l + 1;
+                int offset = block == 0 ? 0 : nLow;
+                double[][] hf = hamiltonian(twoI, tj, block == 0 ? low : high, 0, 0, 0);
+                for (int a = 0; a < hf.length; a++) {
+                    twoJOf[offset + a] = tj;
+                    twoMJOf[offset + a] = ZeemanStructure.twoMJ(a, nI, tj);
+                    twoMIOf[offset + a] = ZeemanStructure.twoMI(a, nI, twoI);
+                    for (int b = 0; b < hf.length; b++) {
+                        h[offset + a][offset + b] = hf[a][b];
+                    }
+                    h[offset + a][offset + a] += block == 0 ? 0 : fineStructure;
+                }
+            }
+            double mub = bohrMagnetonHertzPerTesla() * tesla;
+            double gS = electronSpinG();
+            for (int a = 0; a < n; a++) {
+                for (int b = 0; b < n; b++) {
+                    if (twoMJOf[a] != twoMJOf[b] || twoMIOf[a] != twoMIOf[b]) {
+                        continue;
+                    }
+                    double orbitalAndSpin = 0;
+                    for (int twoMs = -1; twoMs <= 1; twoMs += 2) {
+                        int twoMl = twoMJOf[a] - twoMs;
+                        if (Math.abs(twoMl) > 2 * l) {
+                            continue;
+                        }
+                        orbitalAndSpin += clebsch(l, twoMl, twoMs, twoJOf[a], twoMJOf[a])
+                                * clebsch(l, twoMl, twoMs, twoJOf[b], twoMJOf[b]) * (twoMl / 2.0 + gS * twoMs / 2.0);
+                    }
+                    h[a][b] += mub * orbitalAndSpin;
+                    if (a == b) {
+                        h[a][a] += mub * gI * twoMIOf[a] / 2.0;
+                    }
+                }
+            }
+            energy = new double[n];
+            twoMF = new int[n];
+            twoJ = new int[n];
+            twoF = new int[n];
+            vectors = new double[n][];
+            int k = 0;
+            for (int mf = -(twoI + 2 * l + 1); mf <= twoI + 2 * l + 1; mf += 2) {
+                List<Integer> block = new ArrayList<>();
+                for (int a = 0; a < n; a++) {
+                    if (twoMJOf[a] + twoMIOf[a] == mf) {
+                        block.add(a);
+                    }
+                }
+                int size = block.size();
+                if (size == 0) {
+                    continue;
+                }
+                double[][] sub = new double[size][size];
+                for (int r = 0; r < size; r++) {
+                    for (int c = 0; c < size; c++) {
+                        sub[r][c] = h[block.get(r)][block.get(c)];
+                    }
+                }
+                EigenDecomposition eigen = new EigenDecomposition(new Array2DRowRealMatrix(sub, false));
+                // zero-field labels (J, F) of this block, by their zero-field energy
+                List<int[]> labels = new ArrayList<>();
+                for (int tj : new int[] {2 * l - 1, 2 * l + 1}) {
+                    for (int tf = Math.max(Math.abs(twoI - tj), Math.abs(mf)); tf <= twoI + tj; tf += 2) {
+                        labels.add(new int[] {tj, tf});
+                    }
+                }
+                labels.sort(Comparator.comparingDouble(jf -> (jf[0] == 2 * l + 1 ? fineStructure : 0)
+                        + HyperfineStructure.shiftHertz(twoI, jf[0], jf[1], jf[0] == 2 * l + 1 ? high : low)));
+                double[] values = eigen.getRealEigenvalues();
+                Integer[] order = new Integer[size];
+                for (int r = 0; r < size; r++) {
+                    order[r] = r;
+                }
+                java.util.Arrays.sort(order, Comparator.comparingDouble(r -> values[r]));
+                for (int rank = 0; rank < size; rank++) {
+                    double[] v = eigen.getEigenvector(order[rank]).toArray();
+                    double[] full = new double[n];
+                    for (int r = 0; r < size; r++) {
+                        full[block.get(r)] = v[r];
+                    }
+                    energy[k] = values[order[rank]];
+                    twoMF[k] = mf;
+                    twoJ[k] = labels.get(rank)[0];
+                    twoF[k] = labels.get(rank)[1];
+                    vectors[k] = full;
+                    k++;
+                }
+            }
+        }
+
+        int size() {
+            return energy.length;
+        }
+
+        int twoMF(int u) {
+            return twoMF[u];
+        }
+
+        int twoJ(int u) {
+            return twoJ[u];
+        }
+
+        int twoF(int u) {
+            return twoF[u];
+        }
+
+        double energyHertz(int u) {
+            return energy[u];
+        }
+
+        /**
+         * The amplitude of d_q from the s1/2 state |m_J, m_I> to eigenstate u, the orbital reduced
+         * element taken as 1: sum over the basis of the Clebsch-Gordan decomposition into |m_l m_s>
+         * times (-1)^(l - m_l) (l 1 0; -m_l q 0) (Wigner-Eckart in the orbital space).
+         */
+        double dipole(int u, int twoMJLower, int twoMILower, int twoQ) {
+            double amp = 0;
+            double[] v = vectors[u];
+            for (int b = 0; b < v.length; b++) {
+                if (v[b] == 0 || twoMIOf[b] != twoMILower || twoMJOf[b] != twoMJLower + twoQ) {
+                    continue;
+                }
+                // the s1/2 state is |m_l = 0, m_s = m_J>; the p state's part with that m_s
+                int twoMl = twoMJOf[b] - twoMJLower;
+                if (Math.abs(twoMl) > 2 * l) {
+                    continue;
+                }
+                double cg = clebsch(l, twoMl, twoMJLower, twoJOf[b], twoMJOf[b]);
+                double sign = (((2 * l - twoMl) / 2) & 1) == 0 ? 1 : -1;
+                amp += v[b] * cg * sign * WignerSymbols.threeJ(2 * l, 2, 0, -twoMl, twoQ, 0);
+            }
+            return amp;
+        }
+
+        /** <l m_l, 1/2 m_s | J m_J>, by the 3j symbol (Condon-Shortley phases). */
+        private static double clebsch(int l, int twoMl, int twoMs, int twoJ, int twoMJ) {
+            if (twoMl + twoMs != twoMJ) {
+                return 0;
+            }
+            int phase = (2 * l - 1 + twoMJ) / 2;
+            double sign = (phase & 1) == 0 ? 1 : -1;
+            return sign * Math.sqrt(twoJ + 1.0) * WignerSymbols.threeJ(2 * l, 1, twoJ, twoMl, twoMs, -twoMJ);
+        }
     }
 
     /** The Hamiltonian matrix in the |m_J m_I> basis, Hz. */

@@ -2,6 +2,7 @@ package org.ritzwerk.engine.hyperfine;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
@@ -115,6 +116,104 @@ class ZeemanStructureTest {
         assertEquals(30e6, ZeemanStructure.fineStructureMixingHertz(1, fs, 0.0832), 1e6);
         assertEquals(0, ZeemanStructure.fineStructureMixingHertz(0, 1e9, 1));
         assertThrows(IllegalArgumentException.class, () -> ZeemanStructure.fineStructureMixingHertz(1, 0, 1));
+    }
+
+    // Li-6 (I = 1) 2s and 2p constants (Arimondo et al. 1977, from memory; any values serve the
+    // identities below) and its 2p fine-structure splitting, 10.053 GHz (from memory)
+    private static final HyperfineConstants LI6_2S = HyperfineConstants.ofMegahertz(152.1368407, 0, "x");
+    private static final HyperfineConstants LI6_2P12 = HyperfineConstants.ofMegahertz(17.386, 0, "x");
+    private static final HyperfineConstants LI6_2P32 = HyperfineConstants.ofMegahertz(-1.155, -0.010, "x");
+    private static final double LI_FS = 10.053e9;
+    private static final double LI6_G_I = -0.0004476540;
+
+    private static List<ZeemanComponent> term(int twoJUpper, double centroid, double tesla) {
+        return ZeemanStructure.termComponents(2, LI6_2S, 1, LI6_2P12, LI6_2P32, LI_FS, twoJUpper, LI6_G_I, centroid,
+                tesla);
+    }
+
+    private static List<ZeemanComponent> perLevel(int twoJUpper, double centroid, double tesla) {
+        return ZeemanStructure.components(2, 1, LI6_2S, ZeemanStructure.landeG(0, 1), twoJUpper,
+                twoJUpper == 1 ? LI6_2P12 : LI6_2P32, ZeemanStructure.landeG(1, twoJUpper), LI6_G_I, centroid, tesla);
+    }
+
+    /**
+     * The whole-term diagonalisation gives the per-level components where the two J do not mix: at
+     * zero field exactly, and at 1 G within the mixing they leave out (43 Hz, and shares within
+     * about mu_B B / dE_fs = 1.4e-4 relative).
+     */
+    @Test
+    void theWholeTermAgreesWithEachLevelWhereTheyDoNotMix() {
+        for (double tesla : new double[] {0, 1e-4}) {
+            for (int twoJ : new int[] {1, 3}) {
+                double centroid = twoJ == 1 ? 446.789e12 : 446.789e12 + LI_FS;
+                List<ZeemanComponent> whole = term(twoJ, centroid, tesla);
+                List<ZeemanComponent> each = perLevel(twoJ, centroid, tesla);
+                assertEquals(each.size(), whole.size(), "B = " + tesla + ", 2J' = " + twoJ);
+                for (int k = 0; k < each.size(); k++) {
+                    ZeemanComponent a = each.get(k);
+                    ZeemanComponent b = whole.get(k);
+                    double mixing = ZeemanStructure.fineStructureMixingHertz(1, LI_FS, tesla);
+                    assertEquals(a.frequencyHertz(), b.frequencyHertz(), tesla == 0 ? 1e-3 : 1.5 * mixing, a + " / " + b);
+                    assertEquals(a.relativeStrength(), b.relativeStrength(), tesla == 0 ? 1e-9
+                            : 1e-3 * a.relativeStrength() + 1e-6, a + " / " + b);
+                    assertEquals(a.twoFUpper(), b.twoFUpper());
+                    assertEquals(a.twoMFUpper(), b.twoMFUpper());
+                }
+            }
+        }
+    }
+
+    /**
+     * At Li-6's 832 G the two J mix: the whole term moves the components to m_J' = +-1/2 by about
+     * the mixing estimate (29-30 MHz), each line's shares still sum to 1 (from the whole ground level
+     * every p state takes the same strength, however the field mixes them: the sum over the s
+     * level's states of d_q |s><s| d_q is a multiple of the identity on p; common practice), and at
+     * 1000 T (mu_B B = 14 THz, far beyond
+     * the 10 GHz splitting: the Paschen-Back regime) the pi components sit at the term's centroid
+     * (Delta m_l = Delta m_s = 0: no Zeeman shift; common practice) within the hyperfine and
+     * fine-structure energies, where the per-level method puts them terahertz away.
+     */
+    @Test
+    void theTwoLevelsMixInStrongFields() {
+        double d1 = 446.789e12;
+        double d2 = d1 + LI_FS;
+        double estimate = ZeemanStructure.fineStructureMixingHertz(1, LI_FS, 0.0832);
+        double largest = 0;
+        for (int twoJ : new int[] {1, 3}) {
+            List<ZeemanComponent> whole = term(twoJ, twoJ == 1 ? d1 : d2, 0.0832);
+            List<ZeemanComponent> each = perLevel(twoJ, twoJ == 1 ? d1 : d2, 0.0832);
+            for (ZeemanComponent a : each) {
+                for (ZeemanComponent b : whole) {
+                    if (a.twoFLower() == b.twoFLower() && a.twoMFLower() == b.twoMFLower()
+                            && a.twoFUpper() == b.twoFUpper() && a.twoMFUpper() == b.twoMFUpper()) {
+                        largest = Math.max(largest, Math.abs(a.frequencyHertz() - b.frequencyHertz()));
+                    }
+                }
+            }
+        }
+        assertEquals(estimate, largest, 0.15 * estimate, "largest move against the estimate " + estimate);
+        for (double tesla : new double[] {0.0832, 1, 1000}) {
+            assertEquals(1, term(1, d1, tesla).stream().mapToDouble(ZeemanComponent::relativeStrength).sum(), 1e-9,
+                    "D1 at B = " + tesla);
+            assertEquals(1, term(3, d2, tesla).stream().mapToDouble(ZeemanComponent::relativeStrength).sum(), 1e-9,
+                    "D2 at B = " + tesla);
+        }
+        double centroid = (d1 + 2 * d2) / 3;
+        int pi = 0;
+        for (int twoJ : new int[] {1, 3}) {
+            for (ZeemanComponent c : term(twoJ, twoJ == 1 ? d1 : d2, 1000)) {
+                if (c.q() == 0 && c.relativeStrength() > 1e-3) {
+                    pi++;
+                    assertEquals(centroid, c.frequencyHertz(), 0.02e12, c.toString());
+                }
+            }
+            for (ZeemanComponent c : perLevel(twoJ, twoJ == 1 ? d1 : d2, 1000)) {
+                if (c.q() == 0 && c.relativeStrength() > 1e-3) {
+                    assertTrue(Math.abs(c.frequencyHertz() - centroid) > 1e12, "per level: " + c);
+                }
+            }
+        }
+        assertTrue(pi >= 6, "strong pi components at 1000 T: " + pi);
     }
 
     @Test
