@@ -53,7 +53,7 @@ public record State(int n, int l, int twoJ) {
      * @throws IllegalArgumentException when the text has another form or impossible quantum numbers
      */
     public static State parse(String text) {
-        Matcher m = TEXT.matcher(text.strip().toLowerCase(Locale.ROOT));
+        Matcher m = TEXT.matcher(java.util.Objects.requireNonNull(text, "text").strip().toLowerCase(Locale.ROOT));
         if (!m.matches() || LETTERS.indexOf(m.group(2).charAt(0)) < 0) {
             throw new IllegalArgumentException("cannot read state '" + text + "'; expected n, the letter of l and j, "
                     + "e.g. 5s1/2, 43d5/2, 60p3/2");

@@ -109,6 +109,7 @@ public final class DataContext {
      * @throws DataFileException with every problem in the file
      */
     public DataContext withUserFile(Path file) {
+        java.util.Objects.requireNonNull(file, "file");
         return new DataContext(registry.withUserFile(file, this::nuclearData));
     }
 
@@ -184,7 +185,7 @@ public final class DataContext {
      * @throws ReferenceDataException when this context has no data for the isotope
      */
     public Nucleus nucleus(Species species) {
-        return nuclearData().nucleus(species);
+        return nuclearData().nucleus(java.util.Objects.requireNonNull(species, "species"));
     }
 
     /**

@@ -117,8 +117,10 @@ public final class DataRegistry {
      * @return a registry of exactly these providers
      */
     public static DataRegistry of(List<? extends ReferenceDataProvider> providers, Origin origin) {
+        java.util.Objects.requireNonNull(origin, "origin");
         List<Ranked> ranked = new ArrayList<>();
-        providers.forEach(p -> ranked.add(new Ranked(p, origin)));
+        java.util.Objects.requireNonNull(providers, "providers")
+                .forEach(p -> ranked.add(new Ranked(java.util.Objects.requireNonNull(p, "provider"), origin)));
         return new DataRegistry(ranked);
     }
 

@@ -102,6 +102,16 @@ class DataContextTest {
             "  }",
             "}");
 
+    /** Nulls are refused where they are given, with the argument's name. */
+    @Test
+    void nullArgumentsAreNamed() {
+        DataContext data = DataContext.builtIn();
+        assertEquals("species", assertThrows(NullPointerException.class, () -> data.nucleus(null)).getMessage());
+        assertEquals("file", assertThrows(NullPointerException.class, () -> data.withUserFile(null)).getMessage());
+        assertEquals("providers", assertThrows(NullPointerException.class,
+                () -> DataRegistry.of(null, org.ritzwerk.data.Origin.values()[0])).getMessage());
+    }
+
     @Test
     void theBuiltInContextAnswersAsTheBuiltInData() {
         DataContext context = DataContext.builtIn();

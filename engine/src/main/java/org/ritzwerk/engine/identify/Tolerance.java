@@ -81,7 +81,7 @@ public record Tolerance(Kind kind, double value) {
      *         or when its value is not finite and positive
      */
     public static Tolerance parse(String text) {
-        String t = text.strip();
+        String t = java.util.Objects.requireNonNull(text, "text").strip();
         try {
             Tolerance parsed = read(t);
             if (parsed != null) {

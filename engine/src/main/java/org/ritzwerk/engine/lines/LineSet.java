@@ -707,7 +707,11 @@ public final class LineSet {
      */
     public LineSet select(int[] indices) {
         Builder b = new Builder();
-        for (int i : indices) {
+        for (int i : java.util.Objects.requireNonNull(indices, "indices")) {
+            if (i < 0 || i >= size()) {
+                throw new IndexOutOfBoundsException("line index " + i + " out of range: the set has " + size()
+                        + " lines");
+            }
             b.copy(this, i);
         }
         return b.build();

@@ -94,7 +94,8 @@ public final class BoltzmannPlot {
     /** The fit; for a slope that is not negative, temperature and its uncertainty are NaN. */
     private static Fit fitOrRising(Counting counting, double[] intensity, double[] intensitySigma,
             double[] upperEnergy, double[] upperWeight, double[] einsteinA, double[] frequency) {
-        int n = intensity.length;
+        java.util.Objects.requireNonNull(counting, "counting");
+        int n = java.util.Objects.requireNonNull(intensity, "intensity").length;
         sameLength("upper energies", upperEnergy, n);
         sameLength("statistical weights", upperWeight, n);
         sameLength("Einstein A values", einsteinA, n);

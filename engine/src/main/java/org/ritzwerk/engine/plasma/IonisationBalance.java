@@ -159,7 +159,7 @@ public final class IonisationBalance {
      * @return fractions of H I and H II
      */
     public static double[] hydrogen(HydrogenLikeModel model, double temperature, double electronDensity, int nMax) {
-        requireZ(model, 1);
+        requireZ(java.util.Objects.requireNonNull(model, "model"), 1);
         return fractions(temperature, electronDensity, new double[] {-model.energy(1, 0, 1)},
                 new double[] {hydrogenLikePartition(model, temperature, nMax), 1});
     }

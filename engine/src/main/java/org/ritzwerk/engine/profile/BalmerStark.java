@@ -108,6 +108,7 @@ public final class BalmerStark {
      *         density outside the fit's range
      */
     public static double electronDensity(Line line, double fwhmNanometres) {
+        java.util.Objects.requireNonNull(line, "line");
         if (!(fwhmNanometres > 0) || Double.isInfinite(fwhmNanometres)) {
             throw new IllegalArgumentException(name(line) + " Stark FWHM must be a positive number of nm, got "
                     + fwhmNanometres);

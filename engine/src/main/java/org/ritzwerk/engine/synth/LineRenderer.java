@@ -51,6 +51,8 @@ public final class LineRenderer {
      * @param window     half-width of the rendering window in Voigt FWHMs, at least 1
      */
     public LineRenderer(PixelGrid grid, Instrument instrument, double window) {
+        java.util.Objects.requireNonNull(grid, "grid");
+        java.util.Objects.requireNonNull(instrument, "instrument");
         if (!(window >= 1) || Double.isInfinite(window)) {
             throw new IllegalArgumentException("the rendering window must be a finite number of FWHMs, at least 1, got "
                     + window);

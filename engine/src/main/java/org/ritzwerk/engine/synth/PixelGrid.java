@@ -95,7 +95,7 @@ public final class PixelGrid {
      * @return a grid over a copy of them
      */
     public static PixelGrid of(double[] edges) {
-        if (edges.length < 2) {
+        if (java.util.Objects.requireNonNull(edges, "edges").length < 2) {
             throw new IllegalArgumentException("a grid needs at least two edges, got " + edges.length);
         }
         for (int i = 0; i < edges.length; i++) {
