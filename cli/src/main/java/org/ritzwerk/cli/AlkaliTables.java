@@ -50,17 +50,36 @@ final class AlkaliTables {
     }
 
     private static State state(String text, String option) {
-        try {
-            return State.parse(text.strip());
-        } catch (IllegalArgumentException e) {
-            throw new OptionException(option + ": " + e.getMessage(), e);
-        }
+        return parseState(option, text);
     }
 
     /**
-     * The states of --transition and --ladder must lie in the documented range of n of
-     * {@code levels} and {@code lines} (at most {@link HydrogenLikeLines#MAX_N}) and exist in the
-     * atom (n not below the lowest level of its l).
+     * A state given to an option, within the documented range of n of {@code levels} and
+     * {@code lines} (at most {@link HydrogenLikeLines#MAX_N}).
+     *
+     * @param option the option, for the message
+     * @param text   the state, e.g. 60s1/2
+     * @return the state
+     * @throws OptionException naming the option when the text does not read or n is too large
+     */
+    static State parseState(String option, String text) {
+        State state;
+        try {
+            state = State.parse(text.strip());
+        } catch (IllegalArgumentException e) {
+            throw new OptionException(option + ": " + e.getMessage(), e);
+        }
+        if (state.n() > HydrogenLikeLines.MAX_N) {
+            throw new OptionException(option + ": " + state.notation() + " has n = " + state.n()
+                    + "; states are computed for n up to " + HydrogenLikeLines.MAX_N + " (as --n-max of levels "
+                    + "and lines)");
+        }
+        return state;
+    }
+
+    /**
+     * The states of --transition and --ladder (read by {@link #parseState}, n within range) must
+     * exist in the atom: n not below the lowest level of its l.
      *
      * @param option the option, for the message
      * @param atom   the atom
@@ -68,10 +87,6 @@ final class AlkaliTables {
      */
     static void checkRange(String option, AlkaliAtom atom, State[] states) {
         for (State state : states) {
-            if (state.n() > HydrogenLikeLines.MAX_N) {
-                throw new OptionException(option + ": " + state.notation() + " has n = " + state.n()
-                        + "; states are computed for n up to " + HydrogenLikeLines.MAX_N + " (as --n-max)");
-            }
             if (state.n() < atom.lowestN(state.l())) {
                 throw new OptionException(option + ": " + atom.species().notation() + " has no "
                         + state.notation() + " level: the lowest n of l = " + state.l() + " is "

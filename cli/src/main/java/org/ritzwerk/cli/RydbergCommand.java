@@ -85,17 +85,7 @@ final class RydbergCommand implements Runnable {
     }
 
     static State parseState(String option, String text) {
-        State state;
-        try {
-            state = State.parse(text);
-        } catch (IllegalArgumentException e) {
-            throw new OptionException(option + ": " + e.getMessage(), e);
-        }
-        if (state.n() > org.ritzwerk.engine.hydrogenic.HydrogenLikeLines.MAX_N) {
-            throw new OptionException(option + ": n = " + state.n() + " is beyond the states these commands compute (n"
-                    + " at most " + org.ritzwerk.engine.hydrogenic.HydrogenLikeLines.MAX_N + ", as for levels and lines)");
-        }
-        return state;
+        return AlkaliTables.parseState(option, text);
     }
 
     /**

@@ -168,8 +168,8 @@ class RydbergCommandTest {
         for (String state : new String[] {"2001s1/2", "10000s1/2"}) {
             CliTest.Run run = CliTest.run("rydberg", "polarizability", "--species", "Rb-87 I", "--state", state);
             assertEquals(2, run.code(), state);
-            assertTrue(run.err().contains("--state: n = " + state.substring(0, state.indexOf('s'))
-                    + " is beyond the states these commands compute (n at most 2000"), run.err());
+            assertTrue(run.err().contains("--state: " + state.substring(0, state.indexOf('s')) + "s 2S1/2 has n = "
+                    + state.substring(0, state.indexOf('s')) + "; states are computed for n up to 2000"), run.err());
         }
     }
 
