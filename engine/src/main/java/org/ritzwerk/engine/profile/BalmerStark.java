@@ -7,15 +7,18 @@ package org.ritzwerk.engine.profile;
  * plasmas diagnostics", Spectrochim. Acta B 58, 1489 (2003):
  *
  * <pre>
- *   H-alpha: FWHM = 1.098 nm (Ne / 1e23 m^-3)^0.67965
+ *   H-alpha: FWHM = 0.549 nm (Ne / 1e23 m^-3)^0.67082
  *   H-beta:  FWHM = 4.800 nm (Ne / 1e23 m^-3)^0.68116
  * </pre>
  *
  * The coefficients are from memory: neither the paper nor a publication quoting its fits could
- * be read for this project, so the digits could not be compared with print. Independent check:
+ * be read for this project, so the digits could not be compared with print. The H-alpha fit was
+ * 1.098 nm (Ne / 1e23)^0.67965 until a review recalled, as we do now, 0.549 nm and 0.67082 for
+ * the full width at half maximum, 1.098 nm (with 0.67671) being the paper's fit of the full width
+ * at half area (two recollections that agree; still not compared with print). Independent check:
  * the Stark width of a hydrogen line is set mainly by the quasi-static ion microfield, whose
  * Holtsmark normal field grows as Ne^(2/3) (H. R. Griem, Spectral Line Broadening by Plasmas
- * (Academic Press, 1974)); both exponents lie above 2/3, by 1.9 % and 2.2 %, as expected from
+ * (Academic Press, 1974)); both exponents lie above 2/3, by 0.6 % and 2.2 %, as expected from
  * the electrons' impact broadening, which grows about as Ne. The prefactors have no independent
  * numeric check here. The fits are nearly independent of temperature and of the reduced mass of
  * emitter and perturber for these two lines, which is why they are the usual density diagnostic
@@ -43,7 +46,7 @@ public final class BalmerStark {
     /** The two Balmer lines with a published fit. */
     public enum Line {
         /** n = 3 to 2, 656.3 nm. */
-        ALPHA(3, 1.098, 0.67965),
+        ALPHA(3, 0.549, 0.67082),
         /** n = 4 to 2, 486.1 nm. */
         BETA(4, 4.800, 0.68116);
 

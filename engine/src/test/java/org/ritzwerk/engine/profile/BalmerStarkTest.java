@@ -11,7 +11,8 @@ import org.junit.jupiter.api.Test;
 /**
  * The Balmer Stark widths against the published fits of Gigosos, Gonzalez and Cardenoso,
  * Spectrochim. Acta B 58, 1489 (2003): FWHM(H-beta) = 4.800 nm (Ne / 1e23 m^-3)^0.68116 and
- * FWHM(H-alpha) = 1.098 nm (Ne / 1e23 m^-3)^0.67965. The coefficients are from memory (neither
+ * FWHM(H-alpha) = 0.549 nm (Ne / 1e23 m^-3)^0.67082 (1.098 nm, used before, is the fit of the full
+ * width at half area). The coefficients are from memory (neither
  * the paper nor a publication quoting the fits could be read; see {@link BalmerStark}); the
  * values below are those fits evaluated by hand (4 digits), and {@link #exponentsFollowTheQuasiStaticLaw}
  * is the independent check of the density dependence.
@@ -29,9 +30,9 @@ class BalmerStarkTest {
 
     @Test
     void hAlphaWidthsFollowThePublishedFit() {
-        assertEquals(1.098, BalmerStark.fwhmNanometres(BalmerStark.Line.ALPHA, 1e23), 1e-12);
-        // 1.098 * 10^-0.67965 = 0.2296.
-        assertEquals(0.2296, BalmerStark.fwhmNanometres(BalmerStark.Line.ALPHA, 1e22), 1e-4);
+        assertEquals(0.549, BalmerStark.fwhmNanometres(BalmerStark.Line.ALPHA, 1e23), 1e-12);
+        // 0.549 * 10^-0.67082 = 0.1172.
+        assertEquals(0.1172, BalmerStark.fwhmNanometres(BalmerStark.Line.ALPHA, 1e22), 1e-4);
     }
 
     @Test
