@@ -259,12 +259,25 @@ public final class SpectrumFiles {
         List<double[]> rows = new ArrayList<>();
         int dataRows = 0;
         boolean first = true;
-        for (int i = 0; i < lines.length && problems.size() < MAX_PROBLEMS; i++) {
+        int blank = 0; // an empty line after the header row, reported if pixels follow it
+        int i = 0;
+        for (; i < lines.length && problems.size() < MAX_PROBLEMS; i++) {
             String raw = lines[i];
             String line = raw.strip();
             int lineNo = i + 1;
             if (line.isEmpty()) {
+                if (column != null && blank == 0) {
+                    blank = lineNo;
+                }
                 continue;
+            }
+            if (blank > 0 && !line.startsWith("#")) {
+                // one row per pixel: an empty row among them is a pixel missing, and every pixel
+                // after it would take its neighbour's place
+                problems.add(new DataProblem(source, blank, 0, DataFileException.INVALID,
+                        "an empty row among the pixels; a spectrum has one row per pixel (a missing value "
+                        + "shifts every pixel after it)", ""));
+                blank = 0;
             }
             if (line.startsWith("#")) {
                 String body = line.substring(1).strip();
@@ -343,6 +356,11 @@ public final class SpectrumFiles {
             if (ok) {
                 rows.add(row);
             }
+        }
+        if (problems.size() >= MAX_PROBLEMS && i < lines.length) {
+            problems.add(new DataProblem(source, i + 1, 0, DataFileException.INVALID, "reading stopped after "
+                    + MAX_PROBLEMS + " problems; lines from here on were not checked (is the whole file in another "
+                    + "layout, e.g. decimal commas or another separator?)", ""));
         }
         if (problems.isEmpty() && column == null) {
             throw new DataFileException(DataFileException.INVALID, source, List.of(),

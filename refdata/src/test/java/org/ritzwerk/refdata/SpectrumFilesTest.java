@@ -48,6 +48,32 @@ class SpectrumFilesTest {
         assertEquals(peaks, PeakFiles.read(text, "p.csv"));
     }
 
+    /**
+     * One row per pixel: an empty row among the pixels (a missing value) shifted every pixel after
+     * it by one and the calibration with them, with exit 0. Empty lines after the last pixel are
+     * fine. A file that is bad throughout says where reading stopped.
+     */
+    @Test
+    void anEmptyRowAmongThePixelsIsRefusedAndAStopIsSaid() {
+        StringBuilder gap = new StringBuilder("counts\n");
+        for (int p = 0; p < 20; p++) {
+            gap.append(p == 7 ? "" : Integer.toString(100 + p)).append('\n');
+        }
+        DataFileException e = assertThrows(DataFileException.class, () -> SpectrumFiles.read(gap.toString(), "gap.csv"));
+        assertEquals(1, e.problems().size(), e.getMessage());
+        assertEquals(9, e.problems().get(0).line(), e.getMessage());
+        assertTrue(e.getMessage().contains("an empty row among the pixels"), e.getMessage());
+        assertEquals(3, SpectrumFiles.read("counts\n1\n2\n3\n\n\n", "tail.csv").pixels());
+        StringBuilder commas = new StringBuilder("pixel,counts\n");
+        for (int p = 0; p < 80; p++) {
+            commas.append(p).append(",1,5\n");
+        }
+        DataFileException many = assertThrows(DataFileException.class,
+                () -> SpectrumFiles.read(commas.toString(), "comma.csv"));
+        assertEquals(51, many.problems().size());
+        assertTrue(many.getMessage().contains("reading stopped after 50 problems"), many.getMessage());
+    }
+
     @Test
     void readsJson() throws URISyntaxException {
         SpectrumFiles.Spectrum s = SpectrumFiles.read(fixture("spectrum-good.json"));
