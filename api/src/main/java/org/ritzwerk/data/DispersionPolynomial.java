@@ -25,8 +25,8 @@ import org.ritzwerk.medium.Medium;
  * @param centrePixel  the pixel at which x = 0; finite
  * @param halfRange    pixels per unit of x; finite and positive
  * @param coefficients a_0 .. a_d in nm; at least two, finite
- * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, symmetric and finite; or null
- *                     when unknown
+ * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, symmetric, finite and positive
+ *                     semidefinite; or null when unknown
  * @param lowestPixel  the lowest pixel of the range the polynomial is valid for; finite
  * @param highestPixel the highest pixel of that range; finite, above the lowest
  */
@@ -40,8 +40,8 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
      * @param centrePixel  the pixel at which x = 0; finite
      * @param halfRange    pixels per unit of x; finite and positive
      * @param coefficients a_0 .. a_d in nm; at least two, finite
-     * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, symmetric and finite; or null
-     *                     when unknown
+     * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, symmetric, finite and positive
+     *                     semidefinite; or null when unknown
      * @param lowestPixel  the lowest pixel of the range the polynomial is valid for; finite
      * @param highestPixel the highest pixel of that range; finite, above the lowest
      * @throws IllegalArgumentException naming the first unusable component
@@ -85,11 +85,61 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
                     }
                 }
             }
+            checkPositiveSemidefinite(covariance);
             covariance = copy(covariance);
         }
         if (!(Double.isFinite(lowestPixel) && Double.isFinite(highestPixel) && highestPixel > lowestPixel)) {
             throw new IllegalArgumentException("the valid range needs finite lowest < highest pixel, got "
                     + lowestPixel + " to " + highestPixel);
+        }
+    }
+
+    /**
+     * A covariance has no negative variances and no negative combination: its correlation matrix
+     * (zero-variance rows left out, which must then be zero throughout) has no Cholesky pivot below
+     * -1e-9 (rounding of a fit's covariance stays far inside that).
+     */
+    private static void checkPositiveSemidefinite(double[][] covariance) {
+        int k = covariance.length;
+        double[] scale = new double[k];
+        for (int i = 0; i < k; i++) {
+            if (covariance[i][i] < 0) {
+                throw new IllegalArgumentException("covariance entry (" + i + ", " + i + ") is a variance and must not "
+                        + "be negative, got " + covariance[i][i]);
+            }
+            scale[i] = Math.sqrt(covariance[i][i]);
+            for (int j = 0; j < k; j++) {
+                if (scale[i] == 0 && covariance[i][j] != 0) {
+                    throw new IllegalArgumentException("covariance row " + i + " has variance 0 but covariance "
+                            + covariance[i][j] + " with coefficient " + j);
+                }
+            }
+        }
+        double[][] l = new double[k][k];
+        for (int j = 0; j < k; j++) {
+            if (scale[j] == 0) {
+                continue;
+            }
+            double pivot = 1;
+            for (int m = 0; m < j; m++) {
+                pivot -= l[j][m] * l[j][m];
+            }
+            if (pivot < -1e-9) {
+                throw new IllegalArgumentException("the covariance is not positive semidefinite (a combination of the "
+                        + "coefficients would have a negative variance; pivot " + pivot + " at coefficient " + j + ")");
+            }
+            double d = Math.sqrt(Math.max(pivot, 0));
+            l[j][j] = d;
+            for (int i = j + 1; i < k; i++) {
+                if (scale[i] == 0) {
+                    continue;
+                }
+                double sum = covariance[i][j] / (scale[i] * scale[j]);
+                for (int m = 0; m < j; m++) {
+                    sum -= l[i][m] * l[j][m];
+                }
+                l[i][j] = d > 1e-12 ? sum / d : 0;
+            }
         }
     }
 

@@ -65,5 +65,12 @@ class CalibrationFilesTest {
         DataFileException version = assertThrows(DataFileException.class,
                 () -> CalibrationFiles.read(fixture("calibration-future-version.json")));
         assertTrue(version.getMessage().contains("version 1, the file says 2"), version.getMessage());
+        // a covariance that is no covariance gave every pixel an uncertainty of 0
+        DataFileException negative = assertThrows(DataFileException.class,
+                () -> CalibrationFiles.read(fixture("calibration-negative-variance.json")));
+        assertTrue(negative.getMessage().contains("is a variance and must not be negative"), negative.getMessage());
+        DataFileException indefinite = assertThrows(DataFileException.class,
+                () -> CalibrationFiles.read(fixture("calibration-indefinite-covariance.json")));
+        assertTrue(indefinite.getMessage().contains("not positive semidefinite"), indefinite.getMessage());
     }
 }

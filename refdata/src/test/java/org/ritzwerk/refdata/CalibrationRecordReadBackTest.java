@@ -69,12 +69,22 @@ class CalibrationRecordReadBackTest {
         a[0] = 100 + 4 * Math.abs(slope) + 2000 * r.nextDouble();
         double[][] covariance = null;
         if (r.nextInt(3) != 0) {
+            // L L^T of a random lower-triangular L: a covariance (positive semidefinite), exactly symmetric
+            double[][] l = new double[degree + 1][degree + 1];
+            for (int i = 0; i <= degree; i++) {
+                l[i][i] = Math.sqrt(Math.pow(10, -14 + 10 * r.nextDouble()));
+                for (int j = 0; j < i; j++) {
+                    l[i][j] = (r.nextDouble() - 0.5) * l[i][i];
+                }
+            }
             covariance = new double[degree + 1][degree + 1];
             for (int i = 0; i <= degree; i++) {
-                for (int j = i; j <= degree; j++) {
-                    double v = i == j ? Math.pow(10, -14 + 10 * r.nextDouble()) : (r.nextDouble() - 0.5) * 1e-8;
+                for (int j = 0; j <= degree; j++) {
+                    double v = 0;
+                    for (int k = 0; k <= Math.min(i, j); k++) {
+                        v += l[i][k] * l[j][k];
+                    }
                     covariance[i][j] = v;
-                    covariance[j][i] = v;
                 }
             }
         }
