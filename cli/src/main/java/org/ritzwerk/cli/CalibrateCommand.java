@@ -337,6 +337,14 @@ final class CalibrateCommand implements Callable<Integer> {
         DataRegistry registry = data.context().registry();
         LampSet fromLevels = null;
         List<LineList> lists = new ArrayList<>();
+        List<String> lampSpecies = new ArrayList<>();
+        for (String option : lamps) {
+            for (String text : option.split(",")) {
+                lampSpecies.add(Species.parse(text.strip()).notation());
+            }
+        }
+        OptionRules.distinct("--lamp", lampSpecies);
+        OptionRules.distinct("--lines", lineSets);
         for (String option : lamps) {
             for (String text : option.split(",")) {
                 Species species = Species.parse(text.strip());
@@ -362,7 +370,16 @@ final class CalibrateCommand implements Callable<Integer> {
         for (String set : lineSets) {
             lists.add(LineSets.load(data.context(), set, "lamp set"));
         }
-        LampSet lamp = lists.isEmpty() ? null : LampSet.of(lists, solutionMedium);
+        LampSet lamp;
+        try {
+            lamp = lists.isEmpty() ? null : LampSet.of(lists, solutionMedium);
+        } catch (IllegalArgumentException e) {
+            throw new OptionException("--lamp/--lines: " + e.getMessage(), e);
+        }
+        if (lamp != null && lamp.duplicatesMerged() > 0) {
+            spec.commandLine().getErr().println("note: " + lamp.duplicatesMerged() + " lines of " + lamp.setIds()
+                    + " repeat an earlier list's line of the same species (within 1e-4 nm) and are used once");
+        }
         if (lamp != null && lamp.outsideMedium() > 0) {
             spec.commandLine().getErr().println("note: " + lamp.outsideMedium() + " lines of " + lamp.setIds()
                     + " lie outside the range of the " + solutionMedium.label() + " model (far ultraviolet or"

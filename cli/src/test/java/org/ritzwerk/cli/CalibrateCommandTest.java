@@ -72,6 +72,37 @@ class CalibrateCommandTest {
         return spectrum;
     }
 
+    /**
+     * A lamp given twice (its lines each with a twin: no peak could choose, and the pairing matched
+     * none) is refused; a user's list repeating some built-in lines has them used once, with a
+     * note (they vanished from the fit without a word); a list in the wrong unit is refused by
+     * file and line (it was an internal error).
+     */
+    @Test
+    void duplicateLampLinesAndListsInTheWrongUnit(@TempDir Path dir) throws IOException {
+        Path spectrum = lampSpectrum(dir, 3, false);
+        CliTest.Run twice = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I,Ne I");
+        assertEquals(2, twice.code());
+        assertTrue(twice.err().contains("--lamp names 'Ne I' twice"), twice.err());
+        CliTest.Run setTwice = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--lines", "lamp-ne-i");
+        assertEquals(2, setTwice.code());
+        assertTrue(setTwice.err().contains("the line list lamp-ne-i is given twice"), setTwice.err());
+        String header = "# ritzwerk-lines 1\n# id: extra\n# title: t\n# source: invented\n# provenance: measured\n"
+                + "# version: 1\n# kind: lamp-lines\n# position-unit: nm\n# medium: air\nspecies,position,intensity\n";
+        Path extra = dir.resolve("extra.csv");
+        Files.writeString(extra, header + "Ne I,585.24879,500\nNe I,640.2248,1000\n");
+        CliTest.Run merged = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--lines", extra.toString());
+        assertEquals(0, merged.code(), merged.err());
+        assertTrue(merged.err().contains("note: 2 lines of [lamp-ne-i, extra] repeat an earlier list's line"),
+                merged.err());
+        Path angstrom = dir.resolve("angstrom.csv");
+        Files.writeString(angstrom, header.replace("position-unit: nm", "position-unit: Å") + "Ne I,585.24879,500\n");
+        CliTest.Run unit = CliTest.run("calibrate", spectrum.toString(), "--lines", angstrom.toString());
+        assertEquals(2, unit.code(), unit.err());
+        assertTrue(unit.err().contains("angstrom.csv:11:2: column position: 585.24879 Å air cannot be converted"),
+                unit.err());
+    }
+
     @Test
     void theCommandGivesWhatTheLibraryJobGives(@TempDir Path dir) throws IOException {
         Path spectrum = lampSpectrum(dir, 12, true);

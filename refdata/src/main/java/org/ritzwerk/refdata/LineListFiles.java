@@ -178,6 +178,9 @@ public final class LineListFiles {
                 p.rowProblem(row, "position", "data.not-positive", "position must be positive, got 0");
                 continue;
             }
+            if (outsideMedium(p, row, position, rowUnit, medium)) {
+                continue;
+            }
             Integer first = seen.putIfAbsent(species.notation() + "|" + position + "|" + lower + "|" + upper, row.line());
             if (first != null) {
                 p.rowProblem(row, "position", "data.duplicate", "duplicate of the line on line " + first
@@ -191,6 +194,28 @@ public final class LineListFiles {
         DataSetInfo info = list.info();
         return list.withInfo(new DataSetInfo(info.id(), info.kind(), info.title(), info.version(), info.provenance(),
                 list.coveredSpecies()));
+    }
+
+    /**
+     * A wavelength in air that the air model cannot convert (in the far ultraviolet, or a list in
+     * the wrong unit: Å for nm) is a problem of its row; every command would otherwise refuse the
+     * line later without naming the file or the line.
+     *
+     * @return whether the row had that problem
+     */
+    private static boolean outsideMedium(TabularFiles.Parsed p, TabularFiles.Row row, double position, Unit unit,
+            Medium medium) {
+        if (unit.kind() != Kind.WAVELENGTH || medium == null || medium.equals(Medium.vacuum())) {
+            return false;
+        }
+        try {
+            medium.toVacuum(unit.toSi(position));
+            return false;
+        } catch (org.ritzwerk.medium.MediumException e) {
+            p.rowProblem(row, "position", "data.outside-medium", position + " " + unit.symbol() + " " + medium.label()
+                    + " cannot be converted: " + e.getMessage() + " (is the position-unit right?)");
+            return true;
+        }
     }
 
     /** The most lines {@link #readColumns} reads (the columns are Java arrays). */
@@ -266,6 +291,10 @@ public final class LineListFiles {
         /** A hash of each kept line's levels (lower and upper); null while no line names one. */
         private long[] levels;
 
+        /** The rows' unit and medium, from the header. */
+        private Unit rowUnit;
+        private Medium rowMedium;
+
         void start(TabularFiles.Parsed p, DataKind defaultKind) {
             if (started) {
                 return;
@@ -279,10 +308,10 @@ public final class LineListFiles {
             }
             Unit unit = p.unit(POSITION_KINDS);
             Medium medium = p.medium(unit);
-            Unit rowUnit = unit == null ? Unit.NANOMETRE : unit;
+            rowUnit = unit == null ? Unit.NANOMETRE : unit;
+            rowMedium = rowUnit.kind() == Kind.WAVELENGTH ? (medium == null ? Medium.vacuum() : medium) : null;
             String id = p.header.getOrDefault("id", "");
-            builder = LineColumns.builder(id, rowUnit, rowUnit.kind() == Kind.WAVELENGTH
-                    ? (medium == null ? Medium.vacuum() : medium) : null);
+            builder = LineColumns.builder(id, rowUnit, rowMedium);
         }
 
         @Override
@@ -310,6 +339,9 @@ public final class LineListFiles {
             }
             if (position == 0) {
                 p.rowProblem(row, "position", "data.not-positive", "position must be positive, got 0");
+                return;
+            }
+            if (outsideMedium(p, row, position, rowUnit, rowMedium)) {
                 return;
             }
             int k = builder.size();

@@ -43,9 +43,16 @@ public final class LampSet {
     private final int outsideMedium;
     /** Lines left out of a lamp ranked by rate ({@link #ofRates}) because they carry none. */
     private final int withoutRate;
+    /** Lines left out because an earlier list has the same species' line at the same wavelength. */
+    private final int duplicates;
 
     private LampSet(LampLines lines, List<String> labels, Species[] species, List<String> setIds,
             StrengthClass[] strength, int outsideMedium, int withoutRate) {
+        this(lines, labels, species, setIds, strength, outsideMedium, withoutRate, 0);
+    }
+
+    private LampSet(LampLines lines, List<String> labels, Species[] species, List<String> setIds,
+            StrengthClass[] strength, int outsideMedium, int withoutRate, int duplicates) {
         this.lines = lines;
         this.labels = labels;
         this.species = species;
@@ -53,6 +60,7 @@ public final class LampSet {
         this.strength = strength;
         this.outsideMedium = outsideMedium;
         this.withoutRate = withoutRate;
+        this.duplicates = duplicates;
     }
 
     /**
@@ -80,14 +88,24 @@ public final class LampSet {
         StrengthClass[] strength = new StrengthClass[total];
         List<String> ids = new ArrayList<>();
         int k = 0;
+        int duplicates = 0;
         MediumException firstOutside = null;
         for (LineList list : lists) {
+            if (ids.contains(list.info().id())) {
+                throw new IllegalArgumentException("the line list " + list.info().id() + " is given twice; its lines "
+                        + "would each have a twin no peak could choose between");
+            }
             ids.add(list.info().id());
             double[] converted = new double[list.size()];
             MediumException outside = convert(list, medium, converted);
             firstOutside = firstOutside == null ? outside : firstOutside;
+            int before = k;
             for (int i = 0; i < converted.length; i++) {
                 if (Double.isNaN(converted[i])) {
+                    continue;
+                }
+                if (sameLineEarlier(nm, species, before, converted[i], list.species(i))) {
+                    duplicates++; // another list's line of the same species at this wavelength: kept once
                     continue;
                 }
                 double listed = list.position(i);
@@ -112,7 +130,18 @@ public final class LampSet {
         }
         return new LampSet(LampLines.of(Arrays.copyOf(nm, k), Arrays.copyOf(intensity, k),
                 allSigmas ? Arrays.copyOf(sigma, k) : null, medium), List.copyOf(labels), Arrays.copyOf(species, k),
-                List.copyOf(ids), Arrays.copyOf(strength, k), total - k, 0);
+                List.copyOf(ids), Arrays.copyOf(strength, k), total - k - duplicates, 0, duplicates);
+    }
+
+    /** Whether one of the first {@code count} lines is of this species within 1e-4 nm of this wavelength. */
+    private static boolean sameLineEarlier(double[] nm, Species[] species, int count, double wavelength,
+            Species of) {
+        for (int j = 0; j < count; j++) {
+            if (Math.abs(nm[j] - wavelength) <= 1e-4 && of.equals(species[j])) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /**
@@ -330,7 +359,8 @@ public final class LampSet {
         }
         return new LampSet(LampLines.of(Arrays.copyOf(nm, k), Arrays.copyOf(intensity, k),
                 lines.sigmasGiven() ? Arrays.copyOf(sigma, k) : null, lines.medium()), List.copyOf(outLabels),
-                Arrays.copyOf(outSpecies, k), setIds, Arrays.copyOf(outStrength, k), outsideMedium, withoutRate);
+                Arrays.copyOf(outSpecies, k), setIds, Arrays.copyOf(outStrength, k), outsideMedium, withoutRate,
+                duplicates);
     }
 
     /**
@@ -371,7 +401,7 @@ public final class LampSet {
         other.setIds.stream().filter(id -> !ids.contains(id)).forEach(ids::add);
         return new LampSet(LampLines.of(nm, intensity, sigmas ? sigma : null, lines.medium()), List.copyOf(allLabels),
                 allSpecies, List.copyOf(ids), allStrength, outsideMedium + other.outsideMedium,
-                withoutRate + other.withoutRate);
+                withoutRate + other.withoutRate, duplicates + other.duplicates);
     }
 
     /**
@@ -416,7 +446,7 @@ public final class LampSet {
             }
         }
         return new LampSet(LampLines.of(nm, intensity, sigma, lines.medium()), List.copyOf(keptLabels), keptSpecies,
-                setIds, keptStrength, outsideMedium, withoutRate);
+                setIds, keptStrength, outsideMedium, withoutRate, duplicates);
     }
 
     /**
@@ -430,6 +460,15 @@ public final class LampSet {
     /** @return the lines as the matcher and the fit take them */
     public LampLines lines() {
         return lines;
+    }
+
+    /**
+     * @return how many lines of later lists were left out because an earlier list has a line of the
+     *         same species within 1e-4 nm (a user's list repeating built-in lines): kept once, so
+     *         that no peak has two lines it cannot choose between
+     */
+    public int duplicatesMerged() {
+        return duplicates;
     }
 
     /** @return the number of lines */
