@@ -131,9 +131,9 @@ final class SynthCommand implements Callable<Integer> {
     boolean noNoise;
 
     @Option(names = "--electron-density", paramLabel = "PER_M3",
-            description = "Electron density in m^-3: weights H I, He II (and He I) by the Saha balance at "
-                    + "--temperature and gives H-alpha and H-beta their Stark widths (Gigosos et al. 2003 "
-                    + "fits).")
+            description = "Electron density in m^-3: weights H I and He II by the Saha balance at --temperature "
+                    + "(He I's lines, from its level list, are not weighted yet; a note says so) and gives H-alpha "
+                    + "and H-beta their Stark widths (Gigosos et al. 2003 fits).")
     Double electronDensity;
 
     @Option(names = "--abundance", paramLabel = "ELEMENT=N",
