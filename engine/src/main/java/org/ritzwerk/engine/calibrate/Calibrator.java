@@ -280,6 +280,17 @@ public final class Calibrator {
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException(problem.source() + ": " + e.getMessage(), e);
         }
+        try {
+            return solve(problem, peaks);
+        } catch (CalibrationException e) {
+            // name the exposure in every refusal, as the peak finder's are named
+            throw e.getMessage().startsWith(problem.source() + ": ") ? e
+                    : new CalibrationException(e.code(), problem.source() + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** Pairs, fits and checks the solution of peaks found in the problem's exposure. */
+    private Calibration solve(CalibrationProblem problem, Peaks peaks) {
         LampSet lamp = problem.lamp();
         LampMatcher matcher = LampMatcher.defaults().withTolerance(tolerance).withPrior(problem.prior())
                 .withMinInlierFraction(minMatched).withSecondOrder(secondOrder);

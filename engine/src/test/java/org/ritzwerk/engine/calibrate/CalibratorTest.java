@@ -136,6 +136,12 @@ class CalibratorTest {
                 .calibrate(CalibrationProblem.builder(counts).lamp(lamp).source("lamp.csv").build()));
         assertTrue(nan.getMessage().startsWith("lamp.csv: pixel 17: counts must be finite"), nan.getMessage());
         assertEquals(CalibrationException.UNUSABLE_COUNTS, nan.code());
+        // the pairing's refusals name the exposure too (one pixel of 1e18 counts hides every peak)
+        double[] spike = new LampScene(40, 7, 8).exposure(1);
+        spike[100] = 1e18;
+        CalibrationException none = assertThrows(CalibrationException.class, () -> Calibrator.defaults()
+                .calibrate(CalibrationProblem.builder(spike).lamp(lamp).source("spike.csv").build()));
+        assertTrue(none.getMessage().startsWith("spike.csv: found "), none.getMessage());
         assertThrows(IllegalArgumentException.class, () -> LampSet.of(List.of(), Medium.air()));
     }
 
