@@ -306,7 +306,8 @@ final class SynthCommand implements Callable<Integer> {
                             + ", but none carries any light: " + darkReason(), e);
                 }
                 throw new OptionException("no line of " + emitters() + " falls between " + range
-                        + " (n <= " + nMax + "); widen the range or raise --n-max", e);
+                        + (ions.species.isEmpty() ? "; widen the range (a line list brings only its own lines)"
+                                : " (n <= " + nMax + "); widen the range or raise --n-max"), e);
             }
             throw e;
         }

@@ -102,6 +102,20 @@ class SynthCommandTest {
         assertEquals(550.00005, rows[brightest][0], 0.005, "pixel width 0.005 nm");
     }
 
+    /** A window without lines says what to widen: --n-max only for ions (it was offered for a lamp list too). */
+    @Test
+    void anEmptyWindowSaysWhatToWiden(@TempDir Path dir) {
+        CliTest.Run lamp = CliTest.run("synth", "--lines", "lamp-hg-i", "--dispersion", "700,0.01", "--pixels", "100",
+                "--temperature", "300", "--out", dir.resolve("a.csv").toString());
+        assertEquals(2, lamp.code());
+        assertTrue(lamp.err().contains("widen the range (a line list brings only its own lines)")
+                && !lamp.err().contains("--n-max"), lamp.err());
+        CliTest.Run ion = CliTest.run("synth", "--species", "H I", "--from", "1000 nm", "--to", "1001 nm",
+                "--temperature", "3000", "--n-max", "4", "--out", dir.resolve("b.csv").toString());
+        assertEquals(2, ion.code());
+        assertTrue(ion.err().contains("widen the range or raise --n-max"), ion.err());
+    }
+
     @Test
     void sameSeedSameSpectrumAndTruthAddsUp(@TempDir Path dir) throws IOException {
         String[] args = {"synth", "--species", "H I", "--from", "650 nm", "--to", "660 nm", "--temperature", "8000",
