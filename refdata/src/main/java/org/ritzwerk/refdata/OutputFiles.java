@@ -236,7 +236,8 @@ public final class OutputFiles {
      * @param outputs the files the command will write (null paths are skipped)
      * @param inputs  the files the command reads (null paths and files that do not exist are skipped)
      * @throws RitzwerkException with code {@link #REFUSED}, naming the option(s) and the path: when two outputs are the
-     *         same file, an output is an input, an output's folder does not exist, is not a folder
+     *         same file, an output is an input or is "-" (which would be a file of that name, not
+     *         standard output), an output's folder does not exist, is not a folder
      *         or cannot be written (a file is created and removed there to find out), or the output
      *         exists and is a folder or is read-only
      */
@@ -246,6 +247,11 @@ public final class OutputFiles {
         for (Named output : outputs) {
             if (output.path() == null) {
                 continue;
+            }
+            if (output.path().toString().equals("-")) {
+                // read by many tools as standard output; here it would be a file named "-"
+                throw refused(output.option() + " -: a file named '-' would be written; leave " + output.option()
+                        + " out to see the result on standard output, or name a file (./- for one really named so)");
             }
             Path id = identity(output.path());
             for (int k = 0; k < seen.size(); k++) {

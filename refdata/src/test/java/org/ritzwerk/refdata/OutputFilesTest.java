@@ -99,6 +99,10 @@ class OutputFilesTest {
                 List.of(new OutputFiles.Named("--plot", input)), List.of(new OutputFiles.Named("--data", input))));
         assertEquals("--plot " + input + " is the input given with --data; writing it would destroy the input",
                 overInput.getMessage());
+        // "-" would be a file of that name (many tools read it as standard output)
+        RitzwerkException dash = assertThrows(RitzwerkException.class, () -> OutputFiles.check(
+                List.of(new OutputFiles.Named("--out", java.nio.file.Path.of("-"))), List.of()));
+        assertTrue(dash.getMessage().startsWith("--out -: a file named '-' would be written"), dash.getMessage());
         RitzwerkException noFolder = assertThrows(RitzwerkException.class, () -> OutputFiles.check(
                 List.of(new OutputFiles.Named("--out", folder.resolve("none/a.csv"))), List.of()));
         assertEquals("--out " + folder.resolve("none/a.csv") + ": the folder " + folder.resolve("none")
