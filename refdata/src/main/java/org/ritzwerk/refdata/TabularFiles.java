@@ -673,8 +673,22 @@ final class TabularFiles {
      */
     static String readable(JacksonException e) {
         String text = e.getOriginalMessage();
-        return text == null ? "" : text.replaceAll("\\s*\\(start marker at \\[Source:[^\\]]*\\]\\)", "")
+        if (text == null) {
+            return "";
+        }
+        text = text.replaceAll("\\s*\\(start marker at \\[Source:[^\\]]*\\]\\)", "")
                 .replaceAll("\\s*\\[Source:[^\\]]*\\]", "").strip();
+        // the parser's advice names its own switches, which mean nothing in a data file
+        text = text.replaceAll(":?\\s*enable `?[A-Za-z_.]+`? to allow", "")
+                .replace("Non-standard token 'NaN'", "NaN, which JSON has no number for")
+                .replace("Non-standard token 'Infinity'", "Infinity, which JSON has no number for")
+                .replace("Non-standard token '-Infinity'", "-Infinity, which JSON has no number for");
+        TokenStreamLocation where = e.getLocation();
+        if (where != null && where.getLineNr() > 0) {
+            text += " (line " + where.getLineNr() + (where.getColumnNr() > 0 ? ", column " + where.getColumnNr() : "")
+                    + ")";
+        }
+        return text;
     }
 
     private static void csvSyntax(Parsed p, JacksonException e) {

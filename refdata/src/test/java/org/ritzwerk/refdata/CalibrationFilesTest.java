@@ -65,6 +65,11 @@ class CalibrationFilesTest {
         DataFileException version = assertThrows(DataFileException.class,
                 () -> CalibrationFiles.read(fixture("calibration-future-version.json")));
         assertTrue(version.getMessage().contains("version 1, the file says 2"), version.getMessage());
+        // the parser's advice about its own switches is not shown; where it stopped is
+        DataFileException nan = assertThrows(DataFileException.class, () -> CalibrationFiles.parseRecord("n.json",
+                "{\"format\": \"ritzwerk-calibration\",\n \"rms_nm\": NaN}"));
+        assertTrue(nan.getMessage().contains("NaN, which JSON has no number for (line 2, column")
+                && !nan.getMessage().contains("Feature"), nan.getMessage());
         // a covariance that is no covariance gave every pixel an uncertainty of 0
         DataFileException negative = assertThrows(DataFileException.class,
                 () -> CalibrationFiles.read(fixture("calibration-negative-variance.json")));
