@@ -76,6 +76,8 @@ class CalibrationGuideTest {
         CalibrationFiles.Calibration saved = CalibrationFiles.read(folder.resolve("calibration.json"));
         String text = SpectrumFiles.withWavelengths(new SpectrumFiles.Spectrum("second.csv", second, null, null,
                 java.util.Map.of()), saved.solution(), "calibration.json");
+        // the lines span pixels 150-2000 of 2048: the file says where the wavelengths are extrapolated
+        assertTrue(text.contains("# valid-pixels: "), text.substring(0, 300));
         Path written = folder.resolve("second-nm.csv");
         OutputFiles.writeString(written, text);
         SpectrumFiles.Spectrum read = SpectrumFiles.read(written);
