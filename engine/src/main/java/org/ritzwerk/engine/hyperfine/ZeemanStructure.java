@@ -181,47 +181,26 @@ public final class ZeemanStructure {
         double[][] h = hamiltonian(twoI, twoJ, constants, gJ, gI, fieldTesla);
         List<ZeemanState> out = new ArrayList<>();
         for (int twoMF = -(twoI + twoJ); twoMF <= twoI + twoJ; twoMF += 2) {
-            List<Integer> block = new ArrayList<>();
-            for (int a = 0; a < n; a++) {
-                if (twoMJ(a, nI, twoJ) + twoMI(a, nI, twoI) == twoMF) {
-                    block.add(a);
-                }
-            }
-            int size = block.size();
-            double[][] sub = new double[size][size];
-            for (int r = 0; r < size; r++) {
-                for (int c = 0; c < size; c++) {
-                    sub[r][c] = h[block.get(r)][block.get(c)];
-                }
-            }
-            EigenDecomposition eigen = new EigenDecomposition(new Array2DRowRealMatrix(sub, false));
+            int mf = twoMF;
+            double[][] eigen = blockEigen(h, a -> twoMJ(a, nI, twoJ) + twoMI(a, nI, twoI) == mf);
             // zero-field F labels of this block, by their Casimir energy
             List<int[]> fs = new ArrayList<>();
             for (int twoF = Math.max(Math.abs(twoI - twoJ), Math.abs(twoMF)); twoF <= twoI + twoJ; twoF += 2) {
                 fs.add(new int[] {twoF});
             }
             fs.sort(Comparator.comparingDouble(f -> HyperfineStructure.shiftHertz(twoI, twoJ, f[0], constants)));
-            Integer[] order = new Integer[size];
-            for (int k = 0; k < size; k++) {
-                order[k] = k;
-            }
-            double[] values = eigen.getRealEigenvalues();
-            java.util.Arrays.sort(order, Comparator.comparingDouble(k -> values[k]));
-            for (int rank = 0; rank < size; rank++) {
-                int k = order[rank];
-                double[] v = eigen.getEigenvector(k).toArray();
-                double[] full = new double[n];
+            for (int rank = 0; rank < eigen[0].length; rank++) {
+                double[] full = eigen[1 + rank];
                 int big = 0;
-                for (int r = 0; r < size; r++) {
-                    full[block.get(r)] = v[r];
-                    big = Math.abs(v[r]) > Math.abs(v[big]) ? r : big;
+                for (int r = 0; r < n; r++) {
+                    big = Math.abs(full[r]) > Math.abs(full[big]) ? r : big;
                 }
-                if (v[big] < 0) { // a fixed phase: the largest amplitude positive
+                if (full[big] < 0) { // a fixed phase: the largest amplitude positive
                     for (int r = 0; r < n; r++) {
                         full[r] = -full[r];
                     }
                 }
-                out.add(new ZeemanState(twoMF, fs.get(rank)[0], values[k], full));
+                out.add(new ZeemanState(twoMF, fs.get(rank)[0], eigen[0][rank], full));
             }
         }
         return List.copyOf(out);
@@ -445,23 +424,8 @@ public final class ZeemanStructure {
             vectors = new double[n][];
             int k = 0;
             for (int mf = -(twoI + 2 * l + 1); mf <= twoI + 2 * l + 1; mf += 2) {
-                List<Integer> block = new ArrayList<>();
-                for (int a = 0; a < n; a++) {
-                    if (twoMJOf[a] + twoMIOf[a] == mf) {
-                        block.add(a);
-                    }
-                }
-                int size = block.size();
-                if (size == 0) {
-                    continue;
-                }
-                double[][] sub = new double[size][size];
-                for (int r = 0; r < size; r++) {
-                    for (int c = 0; c < size; c++) {
-                        sub[r][c] = h[block.get(r)][block.get(c)];
-                    }
-                }
-                EigenDecomposition eigen = new EigenDecomposition(new Array2DRowRealMatrix(sub, false));
+                int twoMFBlock = mf;
+                double[][] eigen = blockEigen(h, a -> twoMJOf[a] + twoMIOf[a] == twoMFBlock);
                 // zero-field labels (J, F) of this block, by their zero-field energy
                 List<int[]> labels = new ArrayList<>();
                 for (int tj : new int[] {2 * l - 1, 2 * l + 1}) {
@@ -471,23 +435,12 @@ public final class ZeemanStructure {
                 }
                 labels.sort(Comparator.comparingDouble(jf -> (jf[0] == 2 * l + 1 ? fineStructure : 0)
                         + HyperfineStructure.shiftHertz(twoI, jf[0], jf[1], jf[0] == 2 * l + 1 ? high : low)));
-                double[] values = eigen.getRealEigenvalues();
-                Integer[] order = new Integer[size];
-                for (int r = 0; r < size; r++) {
-                    order[r] = r;
-                }
-                java.util.Arrays.sort(order, Comparator.comparingDouble(r -> values[r]));
-                for (int rank = 0; rank < size; rank++) {
-                    double[] v = eigen.getEigenvector(order[rank]).toArray();
-                    double[] full = new double[n];
-                    for (int r = 0; r < size; r++) {
-                        full[block.get(r)] = v[r];
-                    }
-                    energy[k] = values[order[rank]];
+                for (int rank = 0; rank < eigen[0].length; rank++) {
+                    energy[k] = eigen[0][rank];
                     twoMF[k] = mf;
                     twoJ[k] = labels.get(rank)[0];
                     twoF[k] = labels.get(rank)[1];
-                    vectors[k] = full;
+                    vectors[k] = eigen[1 + rank];
                     k++;
                 }
             }
@@ -546,6 +499,52 @@ public final class ZeemanStructure {
             double sign = (phase & 1) == 0 ? 1 : -1;
             return sign * Math.sqrt(twoJ + 1.0) * WignerSymbols.threeJ(2 * l, 1, twoJ, twoMl, twoMs, -twoMJ);
         }
+    }
+
+    /**
+     * The eigenstates of one block of a Hamiltonian (the basis states {@code inBlock} picks: one
+     * m_F, which the field conserves), by rising energy.
+     *
+     * @return row 0 the energies; row 1 + k the k-th eigenvector over the whole basis (zero outside
+     *         the block); only row 0, empty, for an empty block
+     */
+    private static double[][] blockEigen(double[][] h, java.util.function.IntPredicate inBlock) {
+        int n = h.length;
+        List<Integer> block = new ArrayList<>();
+        for (int a = 0; a < n; a++) {
+            if (inBlock.test(a)) {
+                block.add(a);
+            }
+        }
+        int size = block.size();
+        double[][] out = new double[1 + size][];
+        out[0] = new double[size];
+        if (size == 0) {
+            return out;
+        }
+        double[][] sub = new double[size][size];
+        for (int r = 0; r < size; r++) {
+            for (int c = 0; c < size; c++) {
+                sub[r][c] = h[block.get(r)][block.get(c)];
+            }
+        }
+        EigenDecomposition eigen = new EigenDecomposition(new Array2DRowRealMatrix(sub, false));
+        double[] values = eigen.getRealEigenvalues();
+        Integer[] order = new Integer[size];
+        for (int k = 0; k < size; k++) {
+            order[k] = k;
+        }
+        java.util.Arrays.sort(order, Comparator.comparingDouble(k -> values[k]));
+        for (int rank = 0; rank < size; rank++) {
+            double[] v = eigen.getEigenvector(order[rank]).toArray();
+            double[] full = new double[n];
+            for (int r = 0; r < size; r++) {
+                full[block.get(r)] = v[r];
+            }
+            out[0][rank] = values[order[rank]];
+            out[1 + rank] = full;
+        }
+        return out;
     }
 
     /** The Hamiltonian matrix in the |m_J m_I> basis, Hz. */
