@@ -66,9 +66,11 @@ public final class LampSet {
     /**
      * @param lists  the lamp's line lists, at least one, each with a wavelength-like unit
      * @param medium the medium the calibration's wavelengths are to be in (air for the usual lamp tables)
-     * @return the lines of all lists together, in list order
-     * @throws IllegalArgumentException when no list or no line is given, no line lies within the
-     *         medium's range, or a position cannot be converted (the message names the set)
+     * @return the lines of all lists together, in list order; a line of a later list within 1e-4 nm
+     *         of an earlier list's line of the same species is used once ({@link #duplicatesMerged()})
+     * @throws IllegalArgumentException when no list or no line is given, a list (by its id) is given
+     *         twice, no line lies within the medium's range, or a position cannot be converted (the
+     *         message names the set)
      */
     public static LampSet of(List<LineList> lists, Medium medium) {
         Objects.requireNonNull(medium, "medium");
