@@ -63,7 +63,18 @@ public final class PeakFiles {
     public record Peaks(String id, Unit unit, Medium medium, double[] positions, double[] uncertainties,
             double[] intensities, double[] widths, int[] lines) {
 
-        /** Copies the arrays: the record is immutable, its accessors return copies. */
+        /**
+         * Copies the arrays: the record is immutable, its accessors return copies.
+         *
+         * @param id            the file's id
+         * @param unit          the position unit
+         * @param medium        the medium of wavelength positions, else null
+         * @param positions     positions
+         * @param uncertainties standard uncertainties (NaN when not given)
+         * @param intensities   intensities (NaN when not given)
+         * @param widths        widths (NaN when not given)
+         * @param lines         the 1-based file line of each peak
+         */
         public Peaks {
             positions = positions.clone();
             uncertainties = uncertainties.clone();

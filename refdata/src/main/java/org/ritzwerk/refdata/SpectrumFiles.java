@@ -61,7 +61,16 @@ public final class SpectrumFiles {
     public record Spectrum(String source, double[] counts, double[] sigmas, double[] wavelengths,
             double[] expectedCounts, Map<String, String> header) {
 
-        /** Copies the arrays and the header: the record is immutable, its accessors return copies. */
+        /**
+         * Copies the arrays and the header: the record is immutable, its accessors return copies.
+         *
+         * @param source         the file name, for messages
+         * @param counts         counts per pixel
+         * @param sigmas         standard uncertainties per pixel, or null when the file gives none
+         * @param wavelengths    wavelengths in nm per pixel as written, or null
+         * @param expectedCounts expected counts per pixel before noise, or null
+         * @param header         the {@code # key: value} lines of a CSV file, in order (empty for JSON)
+         */
         public Spectrum {
             counts = counts.clone();
             sigmas = sigmas == null ? null : sigmas.clone();
