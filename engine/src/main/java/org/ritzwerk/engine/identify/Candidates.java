@@ -86,6 +86,16 @@ public final class Candidates {
         return multiplets.get(key(lines.species(j), lines.label(j)));
     }
 
+    /**
+     * Components of one LS multiplet closer than this fraction of their wavelength are entered as
+     * one blend (1e-4: 0.06 nm at 600 nm, unresolved at resolving powers below 10 000).
+     */
+    public static final double TERM_BLEND_RELATIVE = 1e-4;
+
+    /** A level label: its term (configuration, multiplicity and L letter) followed by J. */
+    private static final java.util.regex.Pattern TERM_AND_J =
+            java.util.regex.Pattern.compile("(.*\\d[SPDFGHIKLMN])(\\d+(?:/2)?)");
+
     private static String key(Species species, String label) {
         return species.notation() + " " + label;
     }
@@ -230,9 +240,10 @@ public final class Candidates {
          * components carry the series name after the levels.
          */
         private void addLineSet(LineCatalog.Builder b, LineSet lines, Function<Species, HydrogenLikeModel> models) {
+            boolean[] inGroup = addTermBlends(b, lines);
             for (int i = 0; i < lines.size(); i++) {
                 double vacuum = lines.vacuumWavelengthMetres(i);
-                if (vacuum < lo || vacuum > hi) {
+                if (vacuum < lo || vacuum > hi || inGroup[i]) {
                     continue;
                 }
                 double sigma = lines.vacuumWavelengthUncertaintyMetres(i).orElse(0);
@@ -270,6 +281,95 @@ public final class Candidates {
                 }
                 count++;
             }
+        }
+
+        /**
+         * The fine-structure components of one LS multiplet of a level list (labels that differ
+         * only in J, e.g. {@code 1s3d 3D3 - 1s2p 3P2} and {@code 1s3d 3D2 - 1s2p 3P2}) that lie
+         * within {@link #TERM_BLEND_RELATIVE} of one another in wavelength are entered as one blend,
+         * as a one-electron ion's n -&gt; n' multiplet is: at the strength-weighted centroid, with
+         * their spread, the summed strength and the label of the two terms
+         * ({@code 1s3d 3D - 1s2p 3P}). A peak then matches the multiplet instead of being called
+         * ambiguous between components no spectrometer of that resolution separates. Components
+         * further apart stay separate lines.
+         *
+         * @return which lines were entered in a blend
+         */
+        private boolean[] addTermBlends(LineCatalog.Builder b, LineSet lines) {
+            boolean[] grouped = new boolean[lines.size()];
+            Map<String, List<Integer>> byTerms = new java.util.LinkedHashMap<>();
+            for (int i = 0; i < lines.size(); i++) {
+                double vacuum = lines.vacuumWavelengthMetres(i);
+                // one-electron ions have their own multiplets (and components when asked for)
+                if (vacuum < lo || vacuum > hi || lines.isMultiplet(i) || lines.species(i).isHydrogenLike()
+                        || lines.upperLabel(i).isEmpty() || lines.lowerLabel(i).isEmpty()) {
+                    continue;
+                }
+                String upper = term(lines.upperLabel(i).get());
+                String lower = term(lines.lowerLabel(i).get());
+                if (upper != null && lower != null) {
+                    byTerms.computeIfAbsent(lines.species(i).notation() + "|" + upper + " - " + lower,
+                            k -> new ArrayList<>()).add(i);
+                }
+            }
+            for (Map.Entry<String, List<Integer>> entry : byTerms.entrySet()) {
+                List<Integer> members = new ArrayList<>(entry.getValue());
+                members.sort(java.util.Comparator.comparingDouble(lines::vacuumWavelengthMetres));
+                int start = 0;
+                for (int k = 1; k <= members.size(); k++) {
+                    boolean gap = k == members.size() || lines.vacuumWavelengthMetres(members.get(k))
+                            - lines.vacuumWavelengthMetres(members.get(k - 1))
+                            > TERM_BLEND_RELATIVE * lines.vacuumWavelengthMetres(members.get(k));
+                    if (gap) {
+                        if (k - start >= 2) {
+                            addBlendOf(b, lines, members.subList(start, k), entry.getKey().split("\\|", 2)[1]);
+                            for (int m = start; m < k; m++) {
+                                grouped[members.get(m)] = true;
+                            }
+                        }
+                        start = k;
+                    }
+                }
+            }
+            return grouped;
+        }
+
+        private void addBlendOf(LineCatalog.Builder b, LineSet lines, List<Integer> members, String label) {
+            double weight = 0;
+            double weighted = 0;
+            double sigma = 0;
+            double shortest = Double.POSITIVE_INFINITY;
+            double longest = Double.NEGATIVE_INFINITY;
+            boolean allKnown = true;
+            double total = 0;
+            for (int i : members) {
+                double vacuum = lines.vacuumWavelengthMetres(i);
+                double strength = lines.relativeIntensity(i).orElse(Double.NaN);
+                if (Double.isNaN(strength) && lines.einsteinA(i).isPresent()) {
+                    strength = lines.upperWeight(i).orElse(1) * lines.einsteinA(i).getAsDouble();
+                }
+                if (!Double.isNaN(excitationTemperature) && lines.upperEnergyJoules(i).isPresent()) {
+                    strength *= Math.exp(-lines.upperEnergyJoules(i).getAsDouble()
+                            / (PhysicalConstants.K * excitationTemperature));
+                }
+                allKnown &= !Double.isNaN(strength);
+                double w = Double.isNaN(strength) ? 1 : strength;
+                total += Double.isNaN(strength) ? 0 : strength;
+                weight += w;
+                weighted += w * vacuum;
+                sigma = Math.max(sigma, lines.vacuumWavelengthUncertaintyMetres(i).orElse(0));
+                shortest = Math.min(shortest, vacuum);
+                longest = Math.max(longest, vacuum);
+            }
+            b.addBlend(lines.species(members.get(0)), weighted / weight, sigma, allKnown ? total : Double.NaN,
+                    label + " (" + members.size() + " components)", longest - shortest);
+            count++;
+        }
+
+        /** A level label's term without its J ({@code 1s3d 3D3} gives {@code 1s3d 3D}), or null. */
+        private static String term(String label) {
+            java.util.regex.Matcher m = TERM_AND_J.matcher(label.strip());
+            return m.matches() ? m.group(1) : null;
         }
 
         /**
