@@ -430,8 +430,13 @@ final class IdentifyCommand implements Callable<Integer> {
             StringBuilder text = new StringBuilder("missing strong lines: ");
             for (int k = 0; k < Math.min(missing.length, 10); k++) {
                 int j = missing[k];
+                // in the peaks' unit and medium, as the table's line column, where the fitted shift puts it
+                SpectralArrays.convert(new double[] {lines.wavelength(j)}, Unit.METRE, Medium.vacuum(), unit, medium,
+                        linePositions);
                 text.append(k == 0 ? "" : "; ").append(lines.species(j).notation()).append(' ').append(lines.label(j))
-                        .append(String.format(Locale.ROOT, " (%.6f nm vacuum)", lines.wavelength(j) * 1e9));
+                        .append(String.format(Locale.ROOT, " (%.6f %s%s%s)", linePositions[0], unit.symbol(),
+                                medium == null ? "" : " " + medium.label(),
+                                fit != null || offsetFit != null ? ", as shifted" : ""));
             }
             if (missing.length > 10) {
                 text.append("; and ").append(missing.length - 10).append(" more");
