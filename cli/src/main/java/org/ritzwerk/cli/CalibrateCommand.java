@@ -231,10 +231,11 @@ final class CalibrateCommand implements Callable<Integer> {
             OptionRules.range("--resolving-power", resolvingPower, 1, true, 1e7, "a resolving power from 1 to 1e7"
                     + " (e.g. 3000)");
         }
-        OptionRules.range("--tolerance", tolerance, 0, false, 1e9, "a distance in pixels above 0 and at most 1e9 (e.g. 3)");
+        OptionRules.range("--tolerance", tolerance, 0, false, 1e9,
+                "a distance in pixels above 0 and at most 1e9 (e.g. 3)");
         OptionRules.range("--min-matched", minMatched, 0, true, 1, "a fraction from 0 to 1 (e.g. 0.6)");
-        OptionRules.range("--clip", clip, 1, true, 1e12, "a number of standard deviations of at least 1 and at most 1e12"
-                + " (e.g. 3.5)");
+        OptionRules.range("--clip", clip, 1, true, 1e12,
+                "a number of standard deviations of at least 1 and at most 1e12 (e.g. 3.5)");
         if (requiredPrecision != null) {
             OptionRules.range("--required-precision", requiredPrecision, 0, false, 1e6,
                     "a standard uncertainty in pixels above 0 and at most 1e6 (e.g. 0.05)");

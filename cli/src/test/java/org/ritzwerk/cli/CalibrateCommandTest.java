@@ -91,7 +91,8 @@ class CalibrateCommandTest {
                 + "# version: 1\n# kind: lamp-lines\n# position-unit: nm\n# medium: air\nspecies,position,intensity\n";
         Path extra = dir.resolve("extra.csv");
         Files.writeString(extra, header + "Ne I,585.24879,500\nNe I,640.2248,1000\n");
-        CliTest.Run merged = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--lines", extra.toString());
+        CliTest.Run merged = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--lines",
+                extra.toString());
         assertEquals(0, merged.code(), merged.err());
         assertTrue(merged.err().contains("note: 2 lines of [lamp-ne-i, extra] repeat an earlier list's line"),
                 merged.err());

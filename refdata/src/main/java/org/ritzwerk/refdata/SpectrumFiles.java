@@ -165,7 +165,8 @@ public final class SpectrumFiles {
         if (solution.lowestPixel() > 0 || solution.highestPixel() < n - 1) {
             // pixels outside the fitted range have extrapolated wavelengths; their uncertainty grows fast
             text.append(String.format(Locale.ROOT, "# valid-pixels: %.1f to %.1f (the solution's fitted range; "
-                    + "outside it the wavelengths are extrapolated)%n", solution.lowestPixel(), solution.highestPixel()));
+                    + "outside it the wavelengths are extrapolated)%n", solution.lowestPixel(),
+                    solution.highestPixel()));
         }
         text.append("pixel,wavelength_nm,wavelength_sigma_nm,counts").append(spectrum.sigmas() != null
                 ? ",counts_sigma" : "").append('\n');

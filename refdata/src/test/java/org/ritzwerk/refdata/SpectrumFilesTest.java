@@ -59,7 +59,8 @@ class SpectrumFilesTest {
         for (int p = 0; p < 20; p++) {
             gap.append(p == 7 ? "" : Integer.toString(100 + p)).append('\n');
         }
-        DataFileException e = assertThrows(DataFileException.class, () -> SpectrumFiles.read(gap.toString(), "gap.csv"));
+        DataFileException e = assertThrows(DataFileException.class,
+                () -> SpectrumFiles.read(gap.toString(), "gap.csv"));
         assertEquals(1, e.problems().size(), e.getMessage());
         assertEquals(9, e.problems().get(0).line(), e.getMessage());
         assertTrue(e.getMessage().contains("an empty row among the pixels"), e.getMessage());

@@ -121,8 +121,8 @@ public final class LineQuery {
      * @return this query for those species only
      */
     public LineQuery withSpecies(List<Species> only) {
-        return new LineQuery(List.copyOf(java.util.Objects.requireNonNull(only, "species")), lowHz, highHz, maxN, maxL, tier, multiplets, components, minA, minF,
-                minIntensity, weakest, lowerN, first, second);
+        return new LineQuery(List.copyOf(java.util.Objects.requireNonNull(only, "species")), lowHz, highHz, maxN,
+                maxL, tier, multiplets, components, minA, minF, minIntensity, weakest, lowerN, first, second);
     }
 
     /**

@@ -288,8 +288,8 @@ public final class LineSet {
 
     /**
      * The lines that {@link RitzLines} computed from a species' levels: named by their two labels
-     * ({@code 1s2p 3P2 - 1s2s 3S1}, upper first, as every other line's label), labelled, with the frequency {@code c sigma} (the
-     * wavelength is {@code c / nu}), the vacuum wavelength's standard uncertainty
+     * ({@code 1s2p 3P2 - 1s2s 3S1}, upper first, as every other line's label), labelled, with the
+     * frequency {@code c sigma} (the wavelength is {@code c / nu}), the vacuum wavelength's standard uncertainty
      * {@code u(sigma) / sigma^2} where the levels' uncertainties are known, A and f where given,
      * weights {@code 2J + 1} where J is known, the upper energy above the ground level, and n l j
      * where a label reads as a one-electron state ({@code 5p3/2}). Source model {@code ritz}, with

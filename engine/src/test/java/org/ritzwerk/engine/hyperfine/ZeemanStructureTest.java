@@ -153,7 +153,8 @@ class ZeemanStructureTest {
                     ZeemanComponent a = each.get(k);
                     ZeemanComponent b = whole.get(k);
                     double mixing = ZeemanStructure.fineStructureMixingHertz(1, LI_FS, tesla);
-                    assertEquals(a.frequencyHertz(), b.frequencyHertz(), tesla == 0 ? 1e-3 : 1.5 * mixing, a + " / " + b);
+                    assertEquals(a.frequencyHertz(), b.frequencyHertz(), tesla == 0 ? 1e-3 : 1.5 * mixing,
+                            a + " / " + b);
                     assertEquals(a.relativeStrength(), b.relativeStrength(), tesla == 0 ? 1e-9
                             : 1e-3 * a.relativeStrength() + 1e-6, a + " / " + b);
                     assertEquals(a.twoFUpper(), b.twoFUpper());
