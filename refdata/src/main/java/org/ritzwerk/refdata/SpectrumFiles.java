@@ -275,6 +275,7 @@ public final class SpectrumFiles {
         int dataRows = 0;
         boolean first = true;
         int blank = 0; // an empty line after the header row, reported if pixels follow it
+        int headerCells = 0;
         int i = 0;
         for (; i < lines.length && problems.size() < MAX_PROBLEMS; i++) {
             String raw = lines[i];
@@ -316,6 +317,7 @@ public final class SpectrumFiles {
             first = false;
             String[] cells = line.split(",", -1);
             if (column == null) {
+                headerCells = cells.length;
                 column = new int[COLUMNS.size()];
                 java.util.Arrays.fill(column, -1);
                 for (int c = 0; c < cells.length; c++) {
@@ -339,9 +341,10 @@ public final class SpectrumFiles {
                 continue;
             }
             int pixel = dataRows++;
-            if (cells.length != countColumns(column)) {
+            if (cells.length != headerCells) {
+                // as many fields as the header row names (an unknown column is reported there, once)
                 problems.add(new DataProblem(source, lineNo, 0, DataFileException.INVALID,
-                        "expected " + countColumns(column) + " fields, got " + cells.length, raw));
+                        "expected " + headerCells + " fields, as the header row names, got " + cells.length, raw));
                 continue;
             }
             double[] row = new double[COLUMNS.size()];
@@ -466,14 +469,6 @@ public final class SpectrumFiles {
             values[i] = v.asDouble();
         }
         return values;
-    }
-
-    private static int countColumns(int[] column) {
-        int max = -1;
-        for (int c : column) {
-            max = Math.max(max, c);
-        }
-        return max + 1;
     }
 
     private static double parse(String cell) {

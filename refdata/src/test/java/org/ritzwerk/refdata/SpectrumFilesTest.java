@@ -72,6 +72,11 @@ class SpectrumFilesTest {
         DataFileException many = assertThrows(DataFileException.class,
                 () -> SpectrumFiles.read(commas.toString(), "comma.csv"));
         assertEquals(51, many.problems().size());
+        // an unknown column is reported once, at the header row, not again on every row
+        DataFileException extra = assertThrows(DataFileException.class,
+                () -> SpectrumFiles.read("pixel,counts,gain\n0,1,2\n1,2,2\n2,3,2\n", "extra.csv"));
+        assertEquals(1, extra.problems().size(), extra.getMessage());
+        assertTrue(extra.getMessage().contains("unknown column 'gain'"), extra.getMessage());
         assertTrue(many.getMessage().contains("reading stopped after 50 problems"), many.getMessage());
     }
 
