@@ -247,14 +247,7 @@ public final class Candidates {
                     continue;
                 }
                 double sigma = lines.vacuumWavelengthUncertaintyMetres(i).orElse(0);
-                double strength = lines.relativeIntensity(i).orElse(Double.NaN);
-                if (Double.isNaN(strength) && lines.einsteinA(i).isPresent()) {
-                    strength = lines.upperWeight(i).orElse(1) * lines.einsteinA(i).getAsDouble();
-                }
-                if (!Double.isNaN(excitationTemperature) && lines.upperEnergyJoules(i).isPresent()) {
-                    strength *= Math.exp(-lines.upperEnergyJoules(i).getAsDouble()
-                            / (PhysicalConstants.K * excitationTemperature));
-                }
+                double strength = expectedStrength(lines, i);
                 HydrogenLikeModel model = lines.species(i).isHydrogenLike() ? models.apply(lines.species(i)) : null;
                 String label = label(lines, i, model != null);
                 if (lines.isMultiplet(i)) {
@@ -344,14 +337,7 @@ public final class Candidates {
             double total = 0;
             for (int i : members) {
                 double vacuum = lines.vacuumWavelengthMetres(i);
-                double strength = lines.relativeIntensity(i).orElse(Double.NaN);
-                if (Double.isNaN(strength) && lines.einsteinA(i).isPresent()) {
-                    strength = lines.upperWeight(i).orElse(1) * lines.einsteinA(i).getAsDouble();
-                }
-                if (!Double.isNaN(excitationTemperature) && lines.upperEnergyJoules(i).isPresent()) {
-                    strength *= Math.exp(-lines.upperEnergyJoules(i).getAsDouble()
-                            / (PhysicalConstants.K * excitationTemperature));
-                }
+                double strength = expectedStrength(lines, i);
                 allKnown &= !Double.isNaN(strength);
                 double w = Double.isNaN(strength) ? 1 : strength;
                 total += Double.isNaN(strength) ? 0 : strength;
@@ -364,6 +350,22 @@ public final class Candidates {
             b.addBlend(lines.species(members.get(0)), weighted / weight, sigma, allKnown ? total : Double.NaN,
                     label + " (" + members.size() + " components)", longest - shortest);
             count++;
+        }
+
+        /**
+         * A line's expected strength: its relative intensity, else g_upper A (or A alone), else NaN;
+         * times exp(-E_upper / kT) where an excitation temperature is set and E_upper is known.
+         */
+        private double expectedStrength(LineSet lines, int i) {
+            double strength = lines.relativeIntensity(i).orElse(Double.NaN);
+            if (Double.isNaN(strength) && lines.einsteinA(i).isPresent()) {
+                strength = lines.upperWeight(i).orElse(1) * lines.einsteinA(i).getAsDouble();
+            }
+            if (!Double.isNaN(excitationTemperature) && lines.upperEnergyJoules(i).isPresent()) {
+                strength *= Math.exp(-lines.upperEnergyJoules(i).getAsDouble()
+                        / (PhysicalConstants.K * excitationTemperature));
+            }
+            return strength;
         }
 
         /** A level label's term without its J ({@code 1s3d 3D3} gives {@code 1s3d 3D}), or null. */
