@@ -33,7 +33,7 @@ final class AlkaliTables {
             throw new OptionException("--transition takes two states, e.g. \"50d5/2 -> 51p3/2\", got '"
                     + text + "'");
         }
-        return new State[] {state(parts[0], "--transition"), state(parts[1], "--transition")};
+        return new State[] {parseState("--transition", parts[0]), parseState("--transition", parts[1])};
     }
 
     /**
@@ -46,11 +46,8 @@ final class AlkaliTables {
             throw new OptionException("--ladder takes three states, e.g. \"5s1/2,5p3/2,60s1/2\", got '"
                     + text + "'");
         }
-        return new State[] {state(parts[0], "--ladder"), state(parts[1], "--ladder"), state(parts[2], "--ladder")};
-    }
-
-    private static State state(String text, String option) {
-        return parseState(option, text);
+        return new State[] {parseState("--ladder", parts[0]), parseState("--ladder", parts[1]),
+            parseState("--ladder", parts[2])};
     }
 
     /**

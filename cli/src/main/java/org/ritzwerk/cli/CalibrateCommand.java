@@ -339,34 +339,31 @@ final class CalibrateCommand implements Callable<Integer> {
         DataRegistry registry = data.context().registry();
         LampSet fromLevels = null;
         List<LineList> lists = new ArrayList<>();
-        List<String> lampSpecies = new ArrayList<>();
+        List<Species> lampSpecies = new ArrayList<>();
         for (String option : lamps) {
             for (String text : option.split(",")) {
-                lampSpecies.add(Species.parse(text.strip()).notation());
+                lampSpecies.add(Species.parse(text.strip()));
             }
         }
-        OptionRules.distinct("--lamp", lampSpecies);
+        OptionRules.distinct("--lamp", lampSpecies.stream().map(Species::notation).toList());
         OptionRules.distinct("--lines", lineSets);
-        for (String option : lamps) {
-            for (String text : option.split(",")) {
-                Species species = Species.parse(text.strip());
-                if (!registry.find(DataKind.LAMP_LINES, species).isEmpty()) {
-                    lists.add(data.context().lampLines(species));
-                } else if (data.context().levelList(species).isPresent()) {
-                    LampSet rated = DataLines.lamp(data.context(), species, solutionMedium);
-                    double r = resolvingPower == null ? DEFAULT_LEVEL_LAMP_RESOLVING_POWER : resolvingPower;
-                    int components = rated.size();
-                    rated = rated.blendedAt(r);
-                    spec.commandLine().getErr().println("note: " + species.notation() + ": no lamp set; using the "
-                            + components + " Ritz lines of " + rated.setIds() + " ranked by g_u A (equally populated"
-                            + " upper states; " + rated.withoutRate() + " lines without an A value and "
-                            + rated.outsideMedium() + " outside the " + solutionMedium.label() + " model's range left"
-                            + " out), as " + rated.size() + " lines at resolving power " + OptionRules.show(r));
-                    fromLevels = fromLevels == null ? rated : fromLevels.plus(rated);
-                } else {
-                    throw new OptionException("--lamp: no built-in lamp set or level list for " + species.notation()
-                            + "; see `ritzwerk data`, or give your own list with --lines");
-                }
+        for (Species species : lampSpecies) {
+            if (!registry.find(DataKind.LAMP_LINES, species).isEmpty()) {
+                lists.add(data.context().lampLines(species));
+            } else if (data.context().levelList(species).isPresent()) {
+                LampSet rated = DataLines.lamp(data.context(), species, solutionMedium);
+                double r = resolvingPower == null ? DEFAULT_LEVEL_LAMP_RESOLVING_POWER : resolvingPower;
+                int components = rated.size();
+                rated = rated.blendedAt(r);
+                spec.commandLine().getErr().println("note: " + species.notation() + ": no lamp set; using the "
+                        + components + " Ritz lines of " + rated.setIds() + " ranked by g_u A (equally populated"
+                        + " upper states; " + rated.withoutRate() + " lines without an A value and "
+                        + rated.outsideMedium() + " outside the " + solutionMedium.label() + " model's range left"
+                        + " out), as " + rated.size() + " lines at resolving power " + OptionRules.show(r));
+                fromLevels = fromLevels == null ? rated : fromLevels.plus(rated);
+            } else {
+                throw new OptionException("--lamp: no built-in lamp set or level list for " + species.notation()
+                        + "; see `ritzwerk data`, or give your own list with --lines");
             }
         }
         for (String set : lineSets) {

@@ -112,7 +112,7 @@ final class PairPotentialCommand implements Callable<Integer> {
         }
         State first = common.state();
         int twoM1 = RydbergCommand.parseProjection("--mj", mj, first);
-        State second = partner == null ? first : RydbergCommand.parseState("--partner", partner);
+        State second = partner == null ? first : AlkaliTables.parseState("--partner", partner);
         int twoM2 = partnerMj == null ? twoM1 : RydbergCommand.parseProjection("--partner-mj", partnerMj, second);
         if (partnerMj == null && (Math.abs(twoM2) > second.twoJ())) {
             throw new OptionException("--mj " + mj + " is not a projection of the partner " + second.label()

@@ -80,12 +80,8 @@ final class RydbergCommand implements Runnable {
         }
 
         State state() {
-            return parseState("--state", state);
+            return AlkaliTables.parseState("--state", state);
         }
-    }
-
-    static State parseState(String option, String text) {
-        return AlkaliTables.parseState(option, text);
     }
 
     /**
@@ -333,7 +329,7 @@ final class RydbergCommand implements Runnable {
             PairInteractions pairs = PairInteractions.of(atom).withNeighbourRange(range)
                     .withAngle(Math.toRadians(angle));
             if (partner != null) {
-                State other = parseState("--partner", partner);
+                State other = AlkaliTables.parseState("--partner", partner);
                 int twoM2 = parseProjection("--partner-mj", partnerMj, other);
                 if (Math.abs(other.l() - state.l()) != 1) {
                     throw new OptionException("--partner " + other.label() + " is not dipole-coupled to --state "
@@ -442,7 +438,7 @@ final class RydbergCommand implements Runnable {
             if (to == null) {
                 throw new OptionException("--to is required with --field or --splitting");
             }
-            State other = parseState("--to", to);
+            State other = AlkaliTables.parseState("--to", to);
             int twoM = parseProjection("--mj", mj, state);
             int twoM2 = parseProjection("--to-mj", toMj, other);
             if (Math.abs(other.l() - state.l()) != 1) {

@@ -283,11 +283,11 @@ public final class ZeemanStructure {
      *
      * @param twoI               2 I, 0 to 40
      * @param lower              A (and B) of the s1/2 level
-     * @param lUpper             the upper term's l, 1 to 10
+     * @param lUpper             the upper term's l: 1 (an s1/2 level reaches p terms only)
      * @param upperLow           A and B of its J = l - 1/2 level
      * @param upperHigh          A and B of its J = l + 1/2 level
      * @param fineStructureHertz E(l + 1/2) - E(l - 1/2), Hz; finite (negative for an inverted term)
-     * @param twoJUpper          which line: 2J of its upper level, 2l - 1 or 2l + 1
+     * @param twoJUpper          which line: 2J of its upper level, 1 (D1) or 3 (D2)
      * @param gI                 g_I in units of mu_B
      * @param centroidHertz      that line's hyperfine-free centroid frequency, Hz
      * @param fieldTesla         the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
@@ -300,19 +300,14 @@ public final class ZeemanStructure {
         Objects.requireNonNull(upperLow, "upperLow");
         Objects.requireNonNull(upperHigh, "upperHigh");
         checkField(fieldTesla);
-        if (lUpper < 1 || lUpper > 10 || twoJUpper != 2 * lUpper - 1 && twoJUpper != 2 * lUpper + 1
-                || !Double.isFinite(fineStructureHertz) || !Double.isFinite(centroidHertz) || !Double.isFinite(gI)) {
-            throw new IllegalArgumentException("a term component needs l = 1 to 10, 2J' = 2l +- 1 and finite "
-                    + "frequencies; got l = " + lUpper + ", 2J' = " + twoJUpper + ", " + fineStructureHertz + " Hz, "
-                    + centroidHertz + " Hz, g_I = " + gI);
-        }
-        if (twoJUpper > 3) {
-            // the lower level is s1/2: only J' = 1/2 and 3/2 are reached
-            throw new IllegalArgumentException("no electric-dipole line from s1/2 to 2J' = " + twoJUpper);
-        }
         if (lUpper != 1) {
             throw new IllegalArgumentException("an s1/2 level has electric-dipole lines to p terms only, got l = "
                     + lUpper);
+        }
+        if (twoJUpper != 1 && twoJUpper != 3 || !Double.isFinite(fineStructureHertz)
+                || !Double.isFinite(centroidHertz) || !Double.isFinite(gI)) {
+            throw new IllegalArgumentException("a p-term component needs 2J' = 1 or 3 and finite frequencies; got "
+                    + "2J' = " + twoJUpper + ", " + fineStructureHertz + " Hz, " + centroidHertz + " Hz, g_I = " + gI);
         }
         HyperfineStructure.checkSpins(twoI, 1);
         List<ZeemanState> lo = eigenstates(twoI, 1, lower, electronSpinG(), gI, fieldTesla);
