@@ -71,7 +71,8 @@ final class SynthCommand implements Callable<Integer> {
 
     @Option(names = "--dispersion", paramLabel = "C0,C1,...",
             description = "Instead of --from/--to: pixel p (0-based, centre) sees c0 + c1 p + c2 p^2 + ... nm in "
-                    + "the axis medium, for --pixels pixels, as a spectrometer's dispersion does.")
+                    + "the axis medium, for --pixels pixels, as a spectrometer's dispersion does; rising or falling "
+                    + "with p, the rows in pixel order.")
     String dispersion;
 
     @Option(names = "--lines", paramLabel = "SET",
@@ -202,7 +203,7 @@ final class SynthCommand implements Callable<Integer> {
         }
         Medium axisMedium = AxisMedium.of(medium);
         PixelGrid grid = grid(axisMedium);
-        double span = Math.abs(grid.edge(grid.pixels()) - grid.edge(0));
+        double span = grid.highest() - grid.lowest();
         if (collisionalWidth > 1000 * span) {
             throw new OptionException("--collisional-width must be a Lorentzian FWHM from 0 to 1000 times the"
                     + " spectrum's span (" + OptionRules.show(1000 * span) + " nm here), got "
@@ -447,7 +448,7 @@ final class SynthCommand implements Callable<Integer> {
             } catch (IllegalArgumentException e) {
                 throw new OptionException("--dispersion: " + e.getMessage(), e);
             }
-            double first = Math.min(grid.edge(0), grid.edge(pixels));
+            double first = grid.lowest();
             if (!(first > 0)) {
                 throw new OptionException("--dispersion: the wavelength must be above 0 nm on every pixel, but the"
                         + " first pixel's edge is at " + OptionRules.show(first) + " nm");
@@ -475,8 +476,8 @@ final class SynthCommand implements Callable<Integer> {
      * @return {lines inside the grid, of those the ones with a photon rate of exactly 0}
      */
     private static int[] darkLines(Scene.Lines lines, PixelGrid grid) {
-        double lo = Math.min(grid.edge(0), grid.edge(grid.pixels()));
-        double hi = Math.max(grid.edge(0), grid.edge(grid.pixels()));
+        double lo = grid.lowest();
+        double hi = grid.highest();
         int inside = 0;
         int dark = 0;
         for (int i = 0; i < lines.size(); i++) {
@@ -542,7 +543,7 @@ final class SynthCommand implements Callable<Integer> {
             if (!continuumKind.equals("none")) {
                 throw new OptionException("give --continuum or --continuum-file, not both");
             }
-            density = ContinuumFiles.read(continuumFile, grid.edge(0), grid.edge(grid.pixels()));
+            density = ContinuumFiles.read(continuumFile, grid.lowest(), grid.highest());
         } else {
             switch (continuumKind) {
                 case "none":
@@ -618,7 +619,7 @@ final class SynthCommand implements Callable<Integer> {
         }
         Arrays.sort(order, (a, b) -> Double.compare(spectrum.lineCounts(b), spectrum.lineCounts(a)));
         List<Plots.Label> labels = new ArrayList<>();
-        double span = grid.edge(grid.pixels()) - grid.edge(0);
+        double span = grid.highest() - grid.lowest();
         boolean log = plotScale.equals("log");
         // Only lines that show on the chosen scale get a label: on a linear axis a line with a
         // hundredth of the strongest line's counts is a bump a few pixels high at best.
@@ -626,7 +627,7 @@ final class SynthCommand implements Callable<Integer> {
         for (int i : order) {
             double at = lines.position(i);
             boolean crowded = labels.stream().anyMatch(label -> Math.abs(label.x() - at) < 0.012 * span);
-            if (labels.size() < 25 && !crowded && at > grid.edge(0) && at < grid.edge(grid.pixels())
+            if (labels.size() < 25 && !crowded && at > grid.lowest() && at < grid.highest()
                     && spectrum.lineCounts(i) > 0 && spectrum.lineCounts(i) >= visible) {
                 labels.add(new Plots.Label(at, lines.label(i)));
             }

@@ -337,6 +337,44 @@ class SynthCommandTest {
                 .contains("--dispersion: coefficient c1 'x' is not a number"));
     }
 
+    /**
+     * A spectrometer that reads red first: 660 - 0.06 p - 2e-6 p^2 falls across the chip, the
+     * rows follow the pixels, and Ne I 585.24879 nm air (lamp-ne-i, Sansonetti & Martin 2005)
+     * lands where the polynomial reaches it, p = 1014.34 (solved by hand below). A polynomial that
+     * turns on the chip is refused, naming where.
+     */
+    @Test
+    void aFallingDispersionKeepsThePixelsInTheDetectorsOrder() {
+        CliTest.Run run = CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "660,-0.06,-2e-6",
+                "--pixels", "2048", "--medium", "air", "--temperature", "400", "--resolving-power", "4000",
+                "--no-noise");
+        assertEquals(0, run.code(), run.err());
+        double[][] rows = columns(run.out());
+        assertEquals(2048, rows.length);
+        // The mean of the edges at p -+ 1/2 lies c2 / 4 = -5e-7 nm from the polynomial's value.
+        assertEquals(660 - 5e-7, rows[0][0], 1e-12);
+        for (int p = 1; p < rows.length; p++) {
+            assertTrue(rows[p][0] < rows[p - 1][0], "row " + p);
+        }
+        double a = -2e-6;
+        double b = -0.06;
+        double c = 660 - 585.24879;
+        double expected = (-b - Math.sqrt(b * b - 4 * a * c)) / (2 * a);
+        int top = (int) Math.round(expected);
+        double sum = 0;
+        double moment = 0;
+        for (int p = top - 6; p <= top + 6; p++) {
+            sum += rows[p][1];
+            moment += rows[p][1] * p;
+        }
+        assertEquals(expected, moment / sum, 0.02);
+        CliTest.Run turning = CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "600,0.05,-1e-4",
+                "--pixels", "1000", "--temperature", "400");
+        assertEquals(2, turning.code(), turning.err());
+        assertTrue(turning.err().contains("--dispersion: pixel edges must rise or fall throughout: edge 251 ("),
+                turning.err());
+    }
+
     @Test
     void alkaliAtomsShineByBoltzmannsLaw(@TempDir Path dir) throws IOException {
         // D2 over D1 of Rb: (g A)_D2 / (g A)_D1 exp(-(E_D2 - E_D1) / kT), both from the library's

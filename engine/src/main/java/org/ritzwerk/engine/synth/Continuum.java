@@ -62,10 +62,12 @@ public final class Continuum {
         // Every pixel is integrated and checked before any is added, so a refused call leaves out as it was.
         double[] fluxes = new double[grid.pixels()];
         for (int p = 0; p < fluxes.length; p++) {
-            double flux = GaussLegendre.integrate(density, grid.edge(p), grid.edge(p + 1));
+            double a = Math.min(grid.edge(p), grid.edge(p + 1));
+            double b = Math.max(grid.edge(p), grid.edge(p + 1));
+            double flux = GaussLegendre.integrate(density, a, b);
             if (!(Double.isFinite(flux) && flux >= 0)) {
                 throw new IllegalArgumentException("pixel " + p + ": the continuum density gives " + flux
-                        + " between " + grid.edge(p) + " and " + grid.edge(p + 1) + "; it must be finite and not negative");
+                        + " between " + a + " and " + b + "; it must be finite and not negative");
             }
             fluxes[p] = flux;
         }

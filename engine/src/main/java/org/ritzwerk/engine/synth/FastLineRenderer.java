@@ -119,7 +119,9 @@ public final class FastLineRenderer {
     private static final double RHO = (SPREAD / 2.0) / (2 * Math.PI * Math.sqrt(1 - 1 / OVERSAMPLING));
     private static final double KERNEL_SUM = Math.sqrt(2 * Math.PI * RHO);
 
+    /** The grid in rising order; {@link #falling} says whether out is filled the other way. */
     private final PixelGrid grid;
+    private final boolean falling;
     private final Instrument instrument;
 
     /**
@@ -127,7 +129,8 @@ public final class FastLineRenderer {
      * @param instrument the spectrometer's response, {@link Instrument#ideal()} for none
      */
     public FastLineRenderer(PixelGrid grid, Instrument instrument) {
-        this.grid = grid;
+        this.grid = grid.rising();
+        this.falling = grid.falling();
         this.instrument = instrument;
     }
 
@@ -155,7 +158,13 @@ public final class FastLineRenderer {
                     + " internal points (at most " + MAX_POINTS + "): the lines are too narrow for the pixel range, "
                     + "or one is too wide; use the exact renderer");
         }
-        plan.render(position, flux, gaussianFwhm, lorentzFwhm, out);
+        if (falling) {
+            double[] rising = new double[out.length];
+            plan.render(position, flux, gaussianFwhm, lorentzFwhm, rising);
+            LineRenderer.addReversed(rising, out);
+        } else {
+            plan.render(position, flux, gaussianFwhm, lorentzFwhm, out);
+        }
     }
 
     /**

@@ -41,7 +41,9 @@ public final class LineRenderer {
     /** Distance from the centre, in FWHMs, beyond which pixels use the 4-node rule. */
     private static final double FAR_WING = 8;
 
+    /** The grid in rising order; {@link #falling} says whether out is filled the other way. */
     private final PixelGrid grid;
+    private final boolean falling;
     private final Instrument instrument;
     private final double window;
 
@@ -57,7 +59,8 @@ public final class LineRenderer {
             throw new IllegalArgumentException("the rendering window must be a finite number of FWHMs, at least 1, got "
                     + window);
         }
-        this.grid = grid;
+        this.grid = grid.rising();
+        this.falling = grid.falling();
         this.instrument = instrument;
         this.window = window;
     }
@@ -118,6 +121,24 @@ public final class LineRenderer {
         }
         // Every line is checked before any is drawn, so a refused call leaves out as it was.
         checkAll(position, flux, gaussianFwhm, lorentzFwhm, out);
+        if (falling) {
+            double[] rising = new double[out.length];
+            renderRising(position, flux, gaussianFwhm, lorentzFwhm, rising, threads, progress);
+            addReversed(rising, out);
+        } else {
+            renderRising(position, flux, gaussianFwhm, lorentzFwhm, out, threads, progress);
+        }
+    }
+
+    /** Adds rising[p] to out[out.length - 1 - p]: pixels of a rising grid to its falling twin's. */
+    static void addReversed(double[] rising, double[] out) {
+        for (int p = 0, n = out.length; p < n; p++) {
+            out[n - 1 - p] += rising[p];
+        }
+    }
+
+    private void renderRising(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm,
+            double[] out, int threads, DoubleConsumer progress) {
         int blocks = progress == null && threads == 1 ? 1 : Math.min(out.length, 16 * threads);
         if (threads == 1) {
             for (int b = 0; b < blocks; b++) {

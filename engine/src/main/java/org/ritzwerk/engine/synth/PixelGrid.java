@@ -3,16 +3,31 @@ package org.ritzwerk.engine.synth;
 import java.util.Arrays;
 
 /**
- * The pixels of a detector along the spectral axis, as {@code pixels + 1} strictly increasing
- * edges in one unit of the caller's choice (nm, Hz, cm-1, ...). Pixel i covers
- * [edge(i), edge(i + 1)). Immutable.
+ * The pixels of a detector along the spectral axis, as {@code pixels + 1} edges in one unit of
+ * the caller's choice (nm, Hz, cm-1, ...), strictly rising or strictly falling with the pixel
+ * index, as the detector reads them. Pixel i lies between edge(i) and edge(i + 1). Renderers
+ * fill their output in this order, so a falling grid gives counts in the detector's order.
+ * Immutable.
  */
 public final class PixelGrid {
 
     private final double[] edges;
+    private final boolean falling;
+    /** This grid with its pixels in rising order: itself when it rises. */
+    private final PixelGrid rising;
 
     private PixelGrid(double[] edges) {
         this.edges = edges;
+        this.falling = edges[1] < edges[0];
+        if (falling) {
+            double[] r = new double[edges.length];
+            for (int i = 0; i < r.length; i++) {
+                r[i] = edges[edges.length - 1 - i];
+            }
+            this.rising = new PixelGrid(r);
+        } else {
+            this.rising = this;
+        }
     }
 
     /**
@@ -61,9 +76,10 @@ public final class PixelGrid {
      *
      * @param coefficients c0, c1, ... (at least c0 and c1)
      * @param pixels       number of pixels, at least 1
-     * @return the grid
-     * @throws IllegalArgumentException when the polynomial does not increase across every pixel,
-     *         naming the first pixel where it fails
+     * @return the grid, falling when the polynomial falls (a spectrometer that reads long
+     *         wavelengths first)
+     * @throws IllegalArgumentException when the polynomial turns within the pixels (neither
+     *         rises nor falls across every pixel), naming the first edge where it turns
      */
     public static PixelGrid dispersion(double[] coefficients, int pixels) {
         if (coefficients.length < 2) {
@@ -91,7 +107,8 @@ public final class PixelGrid {
     }
 
     /**
-     * @param edges pixel edges, at least two, finite and strictly increasing
+     * @param edges pixel edges in the detector's order, at least two, finite and strictly rising
+     *              or strictly falling
      * @return a grid over a copy of them
      */
     public static PixelGrid of(double[] edges) {
@@ -102,9 +119,13 @@ public final class PixelGrid {
             if (!Double.isFinite(edges[i])) {
                 throw new IllegalArgumentException("pixel edge " + i + " is not finite: " + edges[i]);
             }
-            if (i > 0 && !(edges[i] > edges[i - 1])) {
-                throw new IllegalArgumentException("pixel edges must increase: edge " + i + " (" + edges[i]
-                        + ") is not above edge " + (i - 1) + " (" + edges[i - 1] + ")");
+        }
+        boolean fall = edges[1] < edges[0];
+        for (int i = 1; i < edges.length; i++) {
+            if (!(fall ? edges[i] < edges[i - 1] : edges[i] > edges[i - 1])) {
+                throw new IllegalArgumentException("pixel edges must rise or fall throughout: edge " + i + " ("
+                        + edges[i] + ") is not " + (fall ? "below" : "above") + " edge " + (i - 1) + " ("
+                        + edges[i - 1] + ")" + (i > 1 ? ", as the edges before it" : ""));
             }
         }
         return new PixelGrid(edges.clone());
@@ -125,6 +146,32 @@ public final class PixelGrid {
     }
 
     /**
+     * @return whether the edges fall with the pixel index (the detector reads the high end of the
+     *         axis first)
+     */
+    public boolean falling() {
+        return falling;
+    }
+
+    /**
+     * @return the same pixels in rising order: this grid when it rises; otherwise pixel p of the
+     *         result is pixel {@code pixels() - 1 - p} of this one
+     */
+    public PixelGrid rising() {
+        return rising;
+    }
+
+    /** @return the lowest edge, at one end of the grid */
+    public double lowest() {
+        return rising.edges[0];
+    }
+
+    /** @return the highest edge, at one end of the grid */
+    public double highest() {
+        return rising.edges[edges.length - 1];
+    }
+
+    /**
      * @param i edge index, 0 .. pixels
      * @return the edge
      */
@@ -142,9 +189,10 @@ public final class PixelGrid {
 
     /**
      * @param position a position on the axis
-     * @return the index of the first edge above position (0 .. pixels + 1)
+     * @return the index of the first edge above position (0 .. pixels + 1), on a rising grid
      */
     int firstEdgeAbove(double position) {
+        assert !falling : "firstEdgeAbove needs a rising grid";
         int k = Arrays.binarySearch(edges, position);
         return k >= 0 ? k + 1 : -k - 1;
     }

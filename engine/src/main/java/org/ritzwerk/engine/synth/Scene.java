@@ -156,8 +156,8 @@ public final class Scene {
             brightest = Math.max(brightest, v);
         }
         if (brightest == 0 && continuum == null) {
-            throw new SceneException(SceneException.NO_LIGHT, "no line falls on the grid from " + grid.edge(0)
-                    + " to " + grid.edge(pixels) + " nm; widen the range, raise nMax or add emitters");
+            throw new SceneException(SceneException.NO_LIGHT, "no line falls on the grid from " + grid.lowest()
+                    + " to " + grid.highest() + " nm; widen the range, raise nMax or add emitters");
         }
         double scale = brightest == 0 ? 0 : peakCounts / brightest;
         double[] expected = new double[pixels];
@@ -334,9 +334,9 @@ public final class Scene {
         private boolean noise;
 
         private Builder(PixelGrid grid) {
-            if (!(grid.edge(0) > 0)) {
+            if (!(grid.lowest() > 0)) {
                 throw new IllegalArgumentException("the grid's axis is wavelength in nm and must start above 0, got "
-                        + grid.edge(0));
+                        + grid.lowest());
             }
             this.grid = grid;
         }
@@ -712,8 +712,8 @@ public final class Scene {
 
         private Lines lines(List<String> notes) {
             double doppler = Math.sqrt((1 + velocity / PhysicalConstants.C) / (1 - velocity / PhysicalConstants.C));
-            double lo = grid.edge(0);
-            double hi = grid.edge(grid.pixels());
+            double lo = grid.lowest();
+            double hi = grid.highest();
             boolean stark = !Double.isNaN(electronDensity) && electronDensity >= BalmerStark.MIN_DENSITY;
             // Lines this far beyond the grid can still put light into it: the window times a
             // generous width (instrument, collisional, Doppler of hydrogen at 1e5 K, Stark).
@@ -780,8 +780,8 @@ public final class Scene {
         private ListEmitter alkaliLines(AlkaliEmitter e) {
             AlkaliAtom atom = e.atom();
             double beta = Math.abs(velocity) / PhysicalConstants.C;
-            double lowHz = PhysicalConstants.C / (grid.edge(grid.pixels()) * 1.02e-9 * (1 + beta));
-            double highHz = PhysicalConstants.C / (grid.edge(0) * 0.98e-9 * (1 - beta));
+            double lowHz = PhysicalConstants.C / (grid.highest() * 1.02e-9 * (1 + beta));
+            double highHz = PhysicalConstants.C / (grid.lowest() * 0.98e-9 * (1 - beta));
             double kT = PhysicalConstants.K * temperature;
             double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
             double partition = 0;
@@ -830,8 +830,8 @@ public final class Scene {
                 }
             }
             double beta = Math.abs(velocity) / PhysicalConstants.C;
-            double loNm = grid.edge(0) * 0.98 * (1 - beta);
-            double hiNm = grid.edge(grid.pixels()) * 1.02 * (1 + beta);
+            double loNm = grid.lowest() * 0.98 * (1 - beta);
+            double hiNm = grid.highest() * 1.02 * (1 + beta);
             int n = 0;
             double[] nm = new double[lines.size()];
             double[] photons = new double[lines.size()];

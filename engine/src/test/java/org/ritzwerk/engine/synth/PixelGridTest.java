@@ -23,12 +23,40 @@ class PixelGridTest {
     }
 
     @Test
-    void refusesGridsThatDoNotIncrease() {
+    void fallingDispersionKeepsTheDetectorsOrder() {
+        // Centres 700 - 0.05 p: pixel 0 is the longest wavelength, as on a spectrometer that reads red first.
+        PixelGrid falling = PixelGrid.dispersion(new double[] {700, -0.05}, 4);
+        assertEquals(true, falling.falling());
+        assertEquals(700.025, falling.edge(0), 1e-12);
+        assertEquals(699.825, falling.edge(4), 1e-12);
+        assertEquals(699.85, falling.centre(3), 1e-12);
+        assertEquals(699.825, falling.lowest(), 1e-12);
+        assertEquals(700.025, falling.highest(), 1e-12);
+        PixelGrid rising = falling.rising();
+        assertEquals(false, rising.falling());
+        for (int p = 0; p < 4; p++) {
+            assertEquals(falling.centre(p), rising.centre(3 - p), 1e-12);
+        }
+        PixelGrid up = PixelGrid.linear(400, 500, 4);
+        assertEquals(false, up.falling());
+        assertEquals(true, up.rising() == up);
+        assertEquals(400, up.lowest(), 0);
+        assertEquals(500, up.highest(), 0);
+        assertEquals(true, PixelGrid.of(new double[] {3, 2, 1}).falling());
+    }
+
+    @Test
+    void refusesGridsThatTurn() {
         // Centres 600 + 0.05 p - 0.01 p^2 turn back after p = 2.5: edge 4 (600.0525) < edge 3 (600.0625).
         String message = assertThrows(IllegalArgumentException.class,
                 () -> PixelGrid.dispersion(new double[] {600, 0.05, -0.01}, 5)).getMessage();
-        assertEquals(true, message.startsWith("pixel edges must increase: edge 4 (600.05"), message);
+        assertEquals(true, message.startsWith("pixel edges must rise or fall throughout: edge 4 (600.05"), message);
         assertEquals(true, message.contains("is not above edge 3 (600.06"), message);
+        assertEquals("pixel edges must rise or fall throughout: edge 2 (4.0) is not below edge 1 (2.0),"
+                + " as the edges before it", assertThrows(IllegalArgumentException.class,
+                        () -> PixelGrid.of(new double[] {3, 2, 4})).getMessage());
+        assertEquals("pixel edges must rise or fall throughout: edge 1 (3.0) is not above edge 0 (3.0)",
+                assertThrows(IllegalArgumentException.class, () -> PixelGrid.of(new double[] {3, 3})).getMessage());
         assertThrows(IllegalArgumentException.class, () -> PixelGrid.linear(5, 5, 10));
         assertThrows(IllegalArgumentException.class, () -> PixelGrid.logarithmic(-1, 5, 10));
         assertEquals("a grid needs at least one pixel, got 0",

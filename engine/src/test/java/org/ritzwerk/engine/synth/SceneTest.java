@@ -91,6 +91,39 @@ class SceneTest {
         }
     }
 
+    /**
+     * A spectrometer that reads long wavelengths first: the counts come in the detector's order,
+     * the mirror of the same pixels read the other way, for both renderers and a continuum, and
+     * H-alpha (656.28 nm in air, common practice) peaks in the pixel that covers it.
+     */
+    @Test
+    void aFallingGridGivesCountsInTheDetectorsOrder() {
+        PixelGrid falling = PixelGrid.dispersion(new double[] {700, -0.03, 1e-6}, 6000);
+        double[] edges = new double[6001];
+        for (int i = 0; i <= 6000; i++) {
+            edges[i] = falling.edge(6000 - i);
+        }
+        PixelGrid twin = PixelGrid.of(edges);
+        for (Renderer renderer : new Renderer[] {Renderer.EXACT, Renderer.FAST}) {
+            double[] down = mirrorScene(falling, renderer).render(1).expectedCounts();
+            double[] up = mirrorScene(twin, renderer).render(1).expectedCounts();
+            int brightest = 0;
+            for (int p = 0; p < down.length; p++) {
+                assertEquals(up[down.length - 1 - p], down[p], 1e-12 * 10_000, renderer + " pixel " + p);
+                brightest = down[p] > down[brightest] ? p : brightest;
+            }
+            double lo = Math.min(falling.edge(brightest), falling.edge(brightest + 1));
+            double hi = Math.max(falling.edge(brightest), falling.edge(brightest + 1));
+            assertTrue(lo - 0.03 < 656.28 && 656.28 < hi + 0.03, renderer + ": brightest pixel " + lo + "-" + hi);
+        }
+    }
+
+    private static Scene mirrorScene(PixelGrid grid, Renderer renderer) {
+        return Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1).temperature(10_000)
+                .instrument(Instrument.ofResolvingPower(8000)).medium(Medium.air()).renderer(renderer)
+                .continuum(nm -> Continuum.planckPerWavelength(nm * 1e-9, 10_000), 200).build();
+    }
+
     @Test
     void autoKeepsSmallScenesOnTheExactRenderer() {
         Scene scene = Scene.builder(PixelGrid.linear(400, 700, 4000)).hydrogenLike(Species.parse("H I"), H, 1).build();
