@@ -132,9 +132,9 @@ final class SynthCommand implements Callable<Integer> {
     boolean noNoise;
 
     @Option(names = "--electron-density", paramLabel = "PER_M3",
-            description = "Electron density in m^-3: weights H I and He II by the Saha balance at --temperature "
-                    + "(He I's lines, from its level list, are not weighted yet; a note says so) and gives H-alpha "
-                    + "and H-beta their Stark widths (Gigosos et al. 2003 fits).")
+            description = "Electron density in m^-3: weights H I, He I and He II by the Saha balance at "
+                    + "--temperature (other species get none; a note says so) and gives H-alpha and H-beta their "
+                    + "Stark widths (Gigosos et al. 2003 fits).")
     Double electronDensity;
 
     @Option(names = "--abundance", paramLabel = "ELEMENT=N",
@@ -264,10 +264,6 @@ final class SynthCommand implements Callable<Integer> {
         for (var levels : levelSets.levels()) {
             builder.levels(levels, DataLines.ritzLines(data.context(), levels.species()),
                     abundance.getOrDefault(levels.species().z(), 1.0), data.context().nucleus(levels.species()));
-            if (electronDensity != null) {
-                spec.commandLine().getErr().println("note: " + levels.species().notation() + ": no ionisation balance"
-                        + " for level lists; --abundance counts its atoms of that stage");
-            }
         }
         for (int z : abundance.keySet()) {
             if (resolved.stream().noneMatch(ion -> ion.species().z() == z)

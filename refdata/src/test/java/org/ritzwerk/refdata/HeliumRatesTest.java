@@ -12,6 +12,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.LineList;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.lines.LineQuery;
 import org.ritzwerk.engine.lines.LineSet;
@@ -167,5 +168,44 @@ class HeliumRatesTest {
                         context.nucleus(HE)));
         assertEquals(org.ritzwerk.engine.synth.SceneException.NO_RATES, e.code());
         assertTrue(e.getMessage().startsWith("He I: no line"), e.getMessage());
+    }
+    /**
+     * With an electron density, He I and He II come from one Saha balance: at 20,000 K and
+     * 1e22 m^-3, n(He II) / n(He I) = 1.74066733 (mpmath 1.3.0 at 30 digits with scipy 1.17.1's
+     * constants: 2 U(He II) / U(He I) (2 pi m_e k T / h^2)^(3/2) / n_e exp(-chi / kT), U(He I) = 1,
+     * U(He II) = 2, chi = 198310.66637 cm^-1; He III is 5e-11 of He II there). So the photon ratio
+     * of a He I line to a He II line with the density is the ratio without it times
+     * 1 / 1.74066733; without a density both stages carry their abundance.
+     */
+    @Test
+    void heliumStagesShareOneSahaBalance() {
+        DataContext context = DataContext.builtIn();
+        RitzLevels levels = DataLines.levels(context, HE);
+        RitzLines job = DataLines.ritzLines(context, HE);
+        Species heII = Species.parse("He II");
+        HydrogenLikeModel ion = HydrogenLikeModel.of(
+                context.nucleus(heII), Tier.QED);
+        double[] ratio = new double[2];
+        List<String> notes = null;
+        for (int k = 0; k < 2; k++) {
+            Scene.Builder b = Scene.builder(PixelGrid.linear(460, 600, 20_000)).temperature(20_000)
+                    .levels(levels, job, 1, context.nucleus(HE)).hydrogenLike(heII, ion, 1);
+            if (k == 1) {
+                b.electronDensity(1e22);
+            }
+            Scene scene = b.build();
+            Scene.Lines lines = scene.lines();
+            int neutral = -1;
+            int ionised = -1;
+            for (int i = 0; i < lines.size(); i++) {
+                neutral = lines.label(i).equals("He I 1s3d 3D3 - 1s2p 3P2") ? i : neutral;
+                ionised = lines.label(i).endsWith("(4-3)") ? i : ionised;
+            }
+            assertTrue(neutral >= 0 && ionised >= 0, "He I 587.6 nm and He II 468.6 nm in the scene");
+            ratio[k] = lines.photons(neutral) / lines.photons(ionised);
+            notes = scene.notes();
+        }
+        assertEquals(1 / 1.74066733, ratio[1] / ratio[0], 1e-6);
+        assertTrue(notes.stream().noneMatch(n -> n.contains("no ionisation balance")), notes.toString());
     }
 }

@@ -16,6 +16,7 @@ import org.ritzwerk.engine.convert.SpectralArrays;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.LineTable;
+import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.plasma.IonisationBalance;
 import org.ritzwerk.engine.profile.BalmerStark;
@@ -48,7 +49,8 @@ import org.ritzwerk.quantity.Unit;
  * <li>Neutral alkali atoms ({@link Builder#alkali}): their lines between the quantum-defect
  * model's levels, populated by Boltzmann's law over the same levels.</li>
  * <li>Any atom with a level list ({@link Builder#levels}, He I say): its Ritz lines that carry an
- * Einstein A, populated by Boltzmann's law over the list's levels.</li>
+ * Einstein A, populated by Boltzmann's law over the list's levels; with an electron density,
+ * He I's abundance is weighted by its Saha fraction in the helium balance, as He II's is.</li>
  * <li>Widths: Doppler (Gaussian, from the temperature and the emitter's mass), the
  * instrument's Gaussian response, and a Lorentzian that is the sum of a collisional FWHM given
  * by the caller, natural widths when asked ({@link Builder#naturalWidths}: each shell's total
@@ -430,8 +432,12 @@ public final class Scene {
          * levels (E1 rules, its window if any) that carry an Einstein A, near the grid, each with
          * the photon rate abundance (2 J_u + 1) A exp(-E_u / kT) / U, U the sum of
          * (2 J + 1) exp(-E / kT) over the levels whose J is known, energies above the list's
-         * lowest level (Boltzmann's law, optically thin, as for the alkali atoms; no ionisation
-         * balance). Lines without A are left out. Labelled {@code He I 1s3d 3D3 - 1s2p 3P2}.
+         * lowest level (Boltzmann's law, optically thin, as for the alkali atoms). With an
+         * electron density, neutral helium's abundance is weighted by its Saha fraction in the
+         * helium balance ({@link IonisationBalance#helium}, the He II ion made from this nucleus,
+         * or the scene's He II model of the same nucleus), as He II's is; other species get no
+         * ionisation balance (a note says so). Lines without A are left out. Labelled
+         * {@code He I 1s3d 3D3 - 1s2p 3P2}.
          *
          * @param levels    the levels (energies in cm^-1 above the ground level)
          * @param job       the Ritz job giving the lines and their A values
@@ -459,7 +465,8 @@ public final class Scene {
             }
             Species species = levels.species();
             lists.add(new LevelEmitter(lines, abundance,
-                    nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value()));
+                    nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value(),
+                    nucleus));
             return this;
         }
 
@@ -728,7 +735,7 @@ public final class Scene {
             for (HydrogenLikeEmitter ion : ions) {
                 addIon(ion, out, doppler, Math.max(lo - reach, lo / 2), hi + reach, stark, notes);
             }
-            for (ListEmitter list : resolvedLists()) {
+            for (ListEmitter list : resolvedLists(notes)) {
                 out.reserve(list.vacuumNm.length);
                 for (int i = 0; i < list.vacuumNm.length; i++) {
                     double vacuumShifted = list.vacuumNm[i] * doppler;
@@ -752,7 +759,7 @@ public final class Scene {
         }
 
         /** The line lists as fixed photon rates, in the order they were added. */
-        private List<ListEmitter> resolvedLists() {
+        private List<ListEmitter> resolvedLists(List<String> notes) {
             List<ListEmitter> out = new ArrayList<>();
             double ionScale = Double.NaN;
             for (Object entry : lists) {
@@ -761,7 +768,7 @@ public final class Scene {
                 } else if (entry instanceof AlkaliEmitter alkali) {
                     out.add(alkaliLines(alkali));
                 } else if (entry instanceof LevelEmitter levels) {
-                    out.add(levelLines(levels));
+                    out.add(levelLines(levels, notes));
                 } else if (entry instanceof RelativeColumns columns) {
                     if (Double.isNaN(ionScale)) {
                         ionScale = strongestIonLine();
@@ -813,8 +820,11 @@ public final class Scene {
             return new ListEmitter(atom.species().notation(), nm, photons, e.massKg(), i -> labels[i]);
         }
 
-        /** A level list's lines with A as fixed photon rates (Boltzmann populations over its levels). */
-        private ListEmitter levelLines(LevelEmitter e) {
+        /**
+         * A level list's lines with A as fixed photon rates (Boltzmann populations over its levels,
+         * He I's weighted by its Saha fraction when there is a density).
+         */
+        private ListEmitter levelLines(LevelEmitter e, List<String> notes) {
             RitzTransitions lines = e.lines();
             RitzLevels levels = lines.levels();
             double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100 / (PhysicalConstants.K * temperature);
@@ -829,6 +839,7 @@ public final class Scene {
                             * Math.exp(-(levels.energyPerCm(i) - lowest) * hcPerCmOverKt);
                 }
             }
+            double number = e.abundance() * levelStageFraction(e, notes);
             double beta = Math.abs(velocity) / PhysicalConstants.C;
             double loNm = grid.lowest() * 0.98 * (1 - beta);
             double hiNm = grid.highest() * 1.02 * (1 + beta);
@@ -844,7 +855,7 @@ public final class Scene {
                 }
                 int u = lines.upper(i);
                 nm[n] = vacuumNm;
-                photons[n] = e.abundance() * (levels.designation(u).twoJ() + 1) * lines.einsteinA(i).getAsDouble()
+                photons[n] = number * (levels.designation(u).twoJ() + 1) * lines.einsteinA(i).getAsDouble()
                         * Math.exp(-(levels.energyPerCm(u) - lowest) * hcPerCmOverKt) / partition;
                 labels[n] = prefix + levels.label(u) + " - " + levels.label(lines.lower(i));
                 n++;
@@ -852,6 +863,34 @@ public final class Scene {
             String[] kept = Arrays.copyOf(labels, n);
             return new ListEmitter(levels.species().notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n),
                     e.massKg(), i -> kept[i]);
+        }
+
+        /**
+         * Neutral helium's Saha fraction in the helium balance, or 1 when there is no density or
+         * no balance for the species (noted). The He II ion of the balance is the scene's He II
+         * model of the same nucleus, so that both stages share one balance, or else one made from
+         * the nucleus.
+         */
+        private double levelStageFraction(LevelEmitter e, List<String> notes) {
+            if (Double.isNaN(electronDensity)) {
+                return 1;
+            }
+            Species species = e.lines().levels().species();
+            if (species.z() != 2 || species.charge() != 0) {
+                notes.add(species.notation() + ": no ionisation balance for its level list; its abundance is taken"
+                        + " as that stage's own");
+                return 1;
+            }
+            HydrogenLikeModel ion = null;
+            for (HydrogenLikeEmitter emitter : ions) {
+                if (emitter.model().nucleus().equals(e.nucleus())) {
+                    ion = emitter.model();
+                }
+            }
+            if (ion == null) {
+                ion = HydrogenLikeModel.of(e.nucleus(), Tier.DIRAC);
+            }
+            return IonisationBalance.helium(ion, temperature, electronDensity, nMax)[0];
         }
 
         /** The strongest one-electron line's photon rate at abundance 1, or 0 without ions. */
@@ -1076,7 +1115,7 @@ public final class Scene {
     private record AlkaliEmitter(AlkaliAtom atom, double abundance, double massKg) {
     }
 
-    private record LevelEmitter(RitzTransitions lines, double abundance, double massKg) {
+    private record LevelEmitter(RitzTransitions lines, double abundance, double massKg, Nucleus nucleus) {
     }
 
 
