@@ -523,8 +523,8 @@ final class SynthCommand implements Callable<Integer> {
                     throw new OptionException("--abundance: '" + item.substring(eq + 1).strip()
                             + "' is not a number in '" + item + "'");
                 }
-                OptionRules.range("--abundance of " + symbol, value, 0, false, Double.MAX_VALUE,
-                        "a positive finite number (relative to 1 for each other element)");
+                OptionRules.range("--abundance of " + symbol, value, 1e-100, true, 1e100,
+                        "1e-100 to 1e100 (relative to 1 for each other element)");
                 if (result.put(z, value) != null) {
                     throw new OptionException("--abundance gives " + symbol + " twice");
                 }

@@ -375,6 +375,18 @@ class SynthCommandTest {
                 turning.err());
     }
 
+    /** Abundances a double cannot carry through the photon rates are bad input, not an internal error. */
+    @Test
+    void anAbundanceBeyondWhatTheRatesCarryIsRefused() {
+        for (String value : new String[] {"1e-320", "1e200"}) {
+            CliTest.Run run = CliTest.run("synth", "--species", "H", "--from", "400 nm", "--to", "700 nm",
+                    "--temperature", "9000", "--abundance", "H=" + value);
+            assertEquals(2, run.code(), run.err());
+            assertTrue(run.err().contains("--abundance of H must be 1e-100 to 1e100 (relative to 1 for each other"
+                    + " element)"), run.err());
+        }
+    }
+
     @Test
     void alkaliAtomsShineByBoltzmannsLaw(@TempDir Path dir) throws IOException {
         // D2 over D1 of Rb: (g A)_D2 / (g A)_D1 exp(-(E_D2 - E_D1) / kT), both from the library's

@@ -162,6 +162,10 @@ public final class Scene {
                     + " to " + grid.highest() + " nm; widen the range, raise nMax or add emitters");
         }
         double scale = brightest == 0 ? 0 : peakCounts / brightest;
+        if (!Double.isFinite(scale)) {
+            throw new SceneException(SceneException.NO_LIGHT, "the lines give so little light (the brightest pixel "
+                    + brightest + ") that it cannot be scaled to " + peakCounts + " counts; raise the abundances");
+        }
         double[] expected = new double[pixels];
         for (int p = 0; p < pixels; p++) {
             expected[p] = lineFlux[p] * scale;
@@ -352,7 +356,7 @@ public final class Scene {
          */
         public Builder hydrogenLike(Species species, HydrogenLikeModel model, double abundance) {
             Objects.requireNonNull(model, "model").requireIon(species); // names a null species too
-            positive("abundance of " + species.notation(), abundance);
+            abundance("abundance of " + species.notation(), abundance);
             ions.add(new HydrogenLikeEmitter(species, model, abundance));
             return this;
         }
@@ -421,7 +425,7 @@ public final class Scene {
         public Builder alkali(AlkaliAtom atom, double abundance, Nucleus nucleus) {
             Objects.requireNonNull(atom, "atom");
             Objects.requireNonNull(nucleus, "nucleus");
-            positive("abundance of " + atom.species().notation(), abundance);
+            abundance("abundance of " + atom.species().notation(), abundance);
             lists.add(new AlkaliEmitter(atom, abundance,
                     nucleus.massKg() + atom.species().z() * PhysicalConstants.ELECTRON_MASS.value()));
             return this;
@@ -452,7 +456,7 @@ public final class Scene {
             Objects.requireNonNull(levels, "levels");
             Objects.requireNonNull(job, "job");
             Objects.requireNonNull(nucleus, "nucleus");
-            positive("abundance of " + levels.species().notation(), abundance);
+            abundance("abundance of " + levels.species().notation(), abundance);
             RitzTransitions lines = job.compute(levels);
             boolean any = false;
             for (int i = 0; i < lines.size() && !any; i++) {
@@ -1096,6 +1100,17 @@ public final class Scene {
         private static void positive(String what, double value) {
             if (!(value > 0) || Double.isInfinite(value)) {
                 throw new IllegalArgumentException(what + " must be finite and positive, got " + value);
+            }
+        }
+
+        /**
+         * An abundance: a relative number or a number density in m^-3 both lie well inside
+         * 1e-100 to 1e100; beyond, the photon rates under- or overflow a double.
+         */
+        private static void abundance(String what, double value) {
+            if (!(value >= 1e-100 && value <= 1e100)) {
+                throw new IllegalArgumentException(what + " must be 1e-100 to 1e100 (a relative number or a number"
+                        + " density), got " + value);
             }
         }
     }
