@@ -393,9 +393,6 @@ final class IdentifyCommand implements Callable<Integer> {
                 Table.Column.number("residual", "residual", "%+.6f"),
                 Table.Column.number("residual_sigma", "res/sigma", "%+.2f")), out, format);
         double[] linePositions = new double[1];
-        // the normalised residual is the wavelength's; in a unit that falls as wavelength rises (cm-1,
-        // Hz, eV) the position residual has the other sign, and res/sigma must share it
-        double residualSign = unit.kind() == org.ritzwerk.quantity.Kind.WAVELENGTH ? 1 : -1;
         double[] positions = read.positions();
         int[] fileLines = read.lines();
         for (int i = 0; i < positions.length; i++) {
@@ -411,7 +408,7 @@ final class IdentifyCommand implements Callable<Integer> {
             table.add(i + 1, fileLines[i], positions[i], status, j < 0 ? null : lines.species(j).notation(),
                     j < 0 ? null : lines.label(j), linePosition,
                     linePosition == null ? null : positions[i] - linePosition,
-                    j < 0 ? null : residualSign * result.normalizedResidual(i));
+                    j < 0 ? null : result.normalizedResidual(i, unit));
         }
         table.finish();
         PrintWriter summary = format == Table.Format.text ? out : spec.commandLine().getErr();

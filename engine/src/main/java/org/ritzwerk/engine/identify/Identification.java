@@ -179,6 +179,21 @@ public final class Identification {
     }
 
     /**
+     * The normalised residual as a user reads it beside a residual in the peaks' own unit
+     * (position minus line position in that unit): {@link #normalizedResidual(int)}, which is the
+     * wavelength's, with its sign turned for a unit that falls as wavelength rises (wavenumber,
+     * frequency, energy, temperature), so that both share one sign.
+     *
+     * @param i    peak index
+     * @param unit the unit the peaks' positions are given in
+     * @return the normalised residual in that unit's direction; NaN when unexplained
+     */
+    public double normalizedResidual(int i, org.ritzwerk.quantity.Unit unit) {
+        double z = normalizedResidual(i);
+        return unit.kind() == org.ritzwerk.quantity.Kind.WAVELENGTH ? z : -z;
+    }
+
+    /**
      * @param i peak index
      * @return the cost of the chosen candidate (see {@link Identifier}); NaN when unexplained
      */
