@@ -3,6 +3,7 @@ package org.ritzwerk.spark;
 import java.io.Serializable;
 import java.util.List;
 import java.util.Objects;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.StrengthClass;
 import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.DispersionFit;
@@ -80,6 +81,9 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
         if (lamps.isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give the lamp: lamps (built-in sets) and/or lineSets");
         }
+        Setups.requireDistinct("lamps", lamps, text -> Species.parse(text.strip()));
+        Setups.requireDistinct("lineSets", lineSets, String::strip);
+        Setups.requireDistinct("dataFiles", dataFiles, String::strip);
         Medium.parse(Objects.requireNonNull(medium, "medium"));
         if (minStrength != null) {
             StrengthClass.fromId(minStrength);

@@ -23,27 +23,46 @@ final class Fields implements Serializable {
     /** Column index per field of the documented schema; -1 for an absent optional column. */
     private final int[] index;
     private final String[] names;
+    /** The table's own name of each field's column (its case may differ); null when absent. */
+    private final String[] columns;
 
-    private Fields(int[] index, String[] names) {
+    private Fields(int[] index, String[] names, String[] columns) {
         this.index = index;
         this.names = names;
+        this.columns = columns;
     }
 
     /**
+     * Finds the documented columns as Spark resolves names by default, regardless of case
+     * ({@code Sigmas} is {@code sigmas}), so that an optional column is never passed over for
+     * its case.
+     *
      * @param actual   the table's schema
      * @param expected the documented schema
      * @param table    the table's role, for messages
      * @return the columns' places
-     * @throws SparkRowException when a required column is missing or a column has another type
+     * @throws SparkRowException when a required column is missing, two columns have a field's name
+     *         apart from case, or a column has another type
      */
     static Fields of(StructType actual, StructType expected, String table) {
         StructField[] fields = expected.fields();
         int[] index = new int[fields.length];
         String[] names = new String[fields.length];
+        String[] columns = new String[fields.length];
         List<String> present = List.of(actual.fieldNames());
         for (int k = 0; k < fields.length; k++) {
             names[k] = fields[k].name();
-            int at = present.indexOf(fields[k].name());
+            int at = -1;
+            for (int c = 0; c < present.size(); c++) {
+                if (present.get(c).equalsIgnoreCase(names[k])) {
+                    if (at >= 0) {
+                        throw new SparkRowException(SparkRowException.BAD_SCHEMA, null, names[k], "the " + table
+                                + " table has two columns of this name apart from case ('" + present.get(at) + "', '"
+                                + present.get(c) + "'); Spark reads names regardless of case, so keep one");
+                    }
+                    at = c;
+                }
+            }
             if (at < 0) {
                 if (!fields[k].nullable()) {
                     throw new SparkRowException(SparkRowException.BAD_SCHEMA, null, fields[k].name(), "the " + table
@@ -58,8 +77,9 @@ final class Fields implements Serializable {
                         + " table has it as " + type.simpleString() + ", not " + fields[k].dataType().simpleString());
             }
             index[k] = at;
+            columns[k] = present.get(at);
         }
-        return new Fields(index, names);
+        return new Fields(index, names, columns);
     }
 
     /** Types compare without their nullability: a nullable array is checked row by row. */
@@ -76,7 +96,7 @@ final class Fields implements Serializable {
     String id(Row row) {
         Object id = row.get(index[0]);
         if (id == null) {
-            throw new SparkRowException(SparkRowException.BAD_FIELD, "null", names[0], "the id is null");
+            throw new SparkRowException(SparkRowException.BAD_FIELD, null, names[0], "a row's id is null");
         }
         return (String) id;
     }
@@ -176,6 +196,15 @@ final class Fields implements Serializable {
 
     /** @return the column names of the documented fields present in the table, in documented order */
     String[] present() {
+        return presentOf(names);
+    }
+
+    /** @return the table's own names of the columns {@link #present()} lists, in the same order */
+    String[] presentColumns() {
+        return presentOf(columns);
+    }
+
+    private String[] presentOf(String[] all) {
         int count = 0;
         for (int at : index) {
             count += at < 0 ? 0 : 1;
@@ -184,7 +213,7 @@ final class Fields implements Serializable {
         int k = 0;
         for (int f = 0; f < index.length; f++) {
             if (index[f] >= 0) {
-                out[k++] = names[f];
+                out[k++] = all[f];
             }
         }
         return out;
@@ -201,8 +230,8 @@ final class Fields implements Serializable {
     /** @return element i, checked finite and at least (or, with above, above) the floor */
     private double element(String id, int field, int i, double value, double floor, boolean above) {
         if (!Double.isFinite(value) || value < floor || above && value == floor) {
-            throw bad(id, field, "element " + i + " is " + value + "; each must be finite and "
-                    + (above ? "above " : "at least ") + floor);
+            throw bad(id, field, "element " + i + " is " + value + "; each must be finite"
+                    + (floor == Double.NEGATIVE_INFINITY ? "" : (above ? " and above " : " and at least ") + floor));
         }
         return value;
     }
@@ -226,7 +255,7 @@ final class Fields implements Serializable {
     /** @return the row's id (field 0, a required string) */
     String id(InternalRow row) {
         if (row.isNullAt(index[0])) {
-            throw new SparkRowException(SparkRowException.BAD_FIELD, "null", names[0], "the id is null");
+            throw new SparkRowException(SparkRowException.BAD_FIELD, null, names[0], "a row's id is null");
         }
         return row.getUTF8String(index[0]).toString();
     }
@@ -234,7 +263,7 @@ final class Fields implements Serializable {
     /** @return the row's id in Spark's form, checked not null; valid until the row is read past */
     UTF8String utf8Id(InternalRow row) {
         if (row.isNullAt(index[0])) {
-            throw new SparkRowException(SparkRowException.BAD_FIELD, "null", names[0], "the id is null");
+            throw new SparkRowException(SparkRowException.BAD_FIELD, null, names[0], "a row's id is null");
         }
         return row.getUTF8String(index[0]);
     }

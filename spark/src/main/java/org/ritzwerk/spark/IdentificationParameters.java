@@ -3,6 +3,7 @@ package org.ritzwerk.spark;
 import java.io.Serializable;
 import java.util.List;
 import java.util.Objects;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.Tier;
@@ -94,6 +95,9 @@ public record IdentificationParameters(List<String> species, String model, int n
         if (species.isEmpty() && lineSets.isEmpty()) {
             throw new IllegalArgumentException("give candidate lines: species (engine lines) and/or lineSets");
         }
+        Setups.requireDistinct("species", species, text -> Species.parse(text.strip()));
+        Setups.requireDistinct("lineSets", lineSets, String::strip);
+        Setups.requireDistinct("dataFiles", dataFiles, String::strip);
         Tier.fromId(Objects.requireNonNull(model, "model"));
         if (nMax < 1 || nMax > HydrogenLikeLines.MAX_N) {
             throw new IllegalArgumentException("nMax must be 1 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);

@@ -34,6 +34,29 @@ final class Setups {
     }
 
     /**
+     * Refuses a list of the parameters that names one thing twice, as the command line refuses a
+     * repeated option value: a species or lamp given twice enters every line twice, so that each
+     * peak finds two equal candidates and none is matched.
+     *
+     * @param field  the list's name, for the message
+     * @param values the list
+     * @param key    what makes two entries the same (the parsed species, say)
+     * @param <K>    the key's type
+     * @throws IllegalArgumentException naming the repeated entry
+     */
+    static <K> void requireDistinct(String field, List<String> values, Function<String, K> key) {
+        java.util.Map<K, String> seen = new java.util.HashMap<>();
+        for (String value : values) {
+            String earlier = seen.putIfAbsent(key.apply(value), value);
+            if (earlier != null) {
+                throw new IllegalArgumentException(field + " names '" + value.strip() + "' twice"
+                        + (earlier.strip().equals(value.strip()) ? "" : " (also as '" + earlier.strip() + "')")
+                        + "; give each once");
+            }
+        }
+    }
+
+    /**
      * @param dataFiles the user's files, first in precedence
      * @return the context the command line builds for {@code --data}: the discovered default,
      *         with the files added in order
@@ -122,9 +145,11 @@ final class Setups {
      */
     static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields, boolean checkIds) {
         String[] names = fields.present();
+        String[] own = fields.presentColumns();
         Column[] columns = new Column[names.length];
         for (int k = 0; k < names.length; k++) {
-            columns[k] = table.col(names[k]);
+            // Under its documented name, whatever its case in the table.
+            columns[k] = table.col(own[k]).as(names[k]);
         }
         Dataset<Row> selected = table.select(columns);
         if (!checkIds) {
@@ -197,8 +222,10 @@ final class Setups {
         Dataset<Row> checked = checkedColumns(table, Fields.of(table.schema(), expected, role), checkIds);
         Fields fields = Fields.of(checked.schema(), expected, role);
         int copies = checked.schema().fieldIndex(COPIES);
-        Broadcast<P> shared = JavaSparkContext.fromSparkContext(table.sparkSession().sparkContext())
-                .broadcast(parameters);
+        // Broadcast as Java-serialised bytes: a session configured with Kryo would otherwise
+        // serialise the parameter record with Kryo, which cannot make a record.
+        Broadcast<byte[]> shared = JavaSparkContext.fromSparkContext(table.sparkSession().sparkContext())
+                .broadcast(serialise(parameters));
         RDD<InternalRow> in = Catalyst.rows(checked);
         RDD<InternalRow> out = in.toJavaRDD().mapPartitions(new InternalTask<>(shared, fields, copies, role, job))
                 .rdd();
@@ -213,13 +240,13 @@ final class Setups {
      */
     static final class InternalTask<P> implements FlatMapFunction<Iterator<InternalRow>, InternalRow> {
         private static final long serialVersionUID = 1L;
-        private final Broadcast<P> shared;
+        private final Broadcast<byte[]> shared;
         private final Fields fields;
         private final int copies;
         private final String role;
         private final InternalJob<P> job;
 
-        InternalTask(Broadcast<P> shared, Fields fields, int copies, String role, InternalJob<P> job) {
+        InternalTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, InternalJob<P> job) {
             this.shared = shared;
             this.fields = fields;
             this.copies = copies;
@@ -232,13 +259,42 @@ final class Setups {
             if (!rows.hasNext()) {
                 return rows;
             }
-            Function<InternalRow, InternalRow> mapping = job.setUp(shared.value(), fields);
+            @SuppressWarnings("unchecked")
+            P parameters = (P) deserialise(shared.value());
+            Function<InternalRow, InternalRow> mapping = job.setUp(parameters, fields);
             return map(rows, row -> {
                 if (!row.isNullAt(copies)) {
                     throw repeatedId(fields.id(row), row.getLong(copies), role);
                 }
-                return mapping.apply(row);
+                try {
+                    return mapping.apply(row);
+                } catch (SparkRowException e) {
+                    throw e;
+                } catch (IllegalArgumentException | ArithmeticException e) {
+                    // An engine refusal the row's own checks did not foresee: name the row.
+                    throw new SparkRowException(SparkRowException.BAD_ROW, fields.id(row), null, e.getMessage());
+                }
             });
+        }
+    }
+
+    /** The parameter record as Java-serialised bytes, for a broadcast any serializer can carry. */
+    static byte[] serialise(Object parameters) {
+        java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
+        try (java.io.ObjectOutputStream out = new java.io.ObjectOutputStream(bytes)) {
+            out.writeObject(parameters);
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException("cannot serialise the parameters", e);
+        }
+        return bytes.toByteArray();
+    }
+
+    /** @return the parameter record {@link #serialise} wrote */
+    static Object deserialise(byte[] bytes) {
+        try (java.io.ObjectInputStream in = new java.io.ObjectInputStream(new java.io.ByteArrayInputStream(bytes))) {
+            return in.readObject();
+        } catch (java.io.IOException | ClassNotFoundException e) {
+            throw new IllegalStateException("cannot read the broadcast parameters: " + e, e);
         }
     }
 }

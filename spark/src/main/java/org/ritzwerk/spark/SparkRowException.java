@@ -17,6 +17,12 @@ public final class SparkRowException extends RitzwerkException {
     /** A table lacks a column the operation needs, or has it with another type. */
     public static final String BAD_SCHEMA = "spark.bad-schema";
 
+    /**
+     * Every field of a row is well-formed, but the engine cannot use them together (values so
+     * extreme that a number overflows, say); the message is the engine's.
+     */
+    public static final String BAD_ROW = "spark.bad-row";
+
     /** @serial the id of the row, or null for a schema problem */
     private final String rowId;
 
@@ -24,23 +30,24 @@ public final class SparkRowException extends RitzwerkException {
     private final String field;
 
     /**
-     * @param code    {@link #BAD_FIELD} or {@link #BAD_SCHEMA}
-     * @param rowId   the row's id (null for a schema problem)
-     * @param field   the column
+     * @param code    {@link #BAD_FIELD}, {@link #BAD_SCHEMA} or {@link #BAD_ROW}
+     * @param rowId   the row's id (null for a schema problem or a row without an id)
+     * @param field   the column (null for {@link #BAD_ROW})
      * @param message what is wrong with it
      */
     SparkRowException(String code, String rowId, String field, String message) {
-        super(code, (rowId == null ? "" : "row '" + rowId + "', ") + "field '" + field + "': " + message);
+        super(code, (rowId == null ? "" : "row '" + rowId + "'" + (field == null ? ": " : ", "))
+                + (field == null ? "" : "field '" + field + "': ") + message);
         this.rowId = rowId;
         this.field = field;
     }
 
-    /** @return the id of the offending row, or null for a schema problem */
+    /** @return the id of the offending row, or null for a schema problem or a row without an id */
     public String rowId() {
         return rowId;
     }
 
-    /** @return the offending column */
+    /** @return the offending column, or null when the row as a whole is refused ({@link #BAD_ROW}) */
     public String field() {
         return field;
     }

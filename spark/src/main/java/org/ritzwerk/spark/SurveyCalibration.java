@@ -213,7 +213,7 @@ public final class SurveyCalibration {
 
         private static Row apply(Row row) {
             if (row.isNullAt(0)) {
-                throw bad("null", "id", "the id is null");
+                throw bad(null, "id", "a row's id is null");
             }
             String id = row.getString(0);
             if (row.isNullAt(1)) {
@@ -273,6 +273,9 @@ public final class SurveyCalibration {
                     throw bad(id, "counts", "element " + i + " is null");
                 }
                 values[i] = (Double) value;
+                if (!Double.isFinite(values[i])) {
+                    throw bad(id, "counts", "element " + i + " is " + values[i] + "; each must be finite");
+                }
             }
             return RowFactory.create(id, calibrationId, values, solution.pixelCentreWavelengths(pixels),
                     solution.pixelCentreWavelengthSigmas(pixels), medium.spec());

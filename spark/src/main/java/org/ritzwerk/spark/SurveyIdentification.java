@@ -112,7 +112,8 @@ public final class SurveyIdentification {
      *         ordered by the {@code peak} column; a spectrum's sigmas (intensities, widths) are null
      *         unless every one of its peaks gives one. Reading its positions fails the job with a
      *         {@link SparkRowException} naming the id and the peak when two rows of one id have the
-     *         same peak (the order would be undefined) or a peak is null.
+     *         same peak (the order would be undefined), a peak is null, or the peaks of a spectrum
+     *         do not run 0, 1, 2, ... (the identified peaks' numbers would not be the input's).
      */
     public static Dataset<Row> peakLists(Dataset<Row> peakRows) {
         Fields.of(peakRows.schema(), Schemas.PEAK_ROWS, "peak-row");
@@ -127,7 +128,7 @@ public final class SurveyIdentification {
 
     /**
      * The check of one spectrum's peak indices, sorted ascending (nulls first): true, or a
-     * {@link SparkRowException} naming the id and the first repeated (or null) peak.
+     * {@link SparkRowException} naming the id and the first repeated, null or missing peak.
      */
     static final class UniquePeaks implements UDF2<String, scala.collection.Seq<Integer>, Boolean> {
         private static final long serialVersionUID = 1L;
@@ -151,6 +152,12 @@ public final class SurveyIdentification {
                     throw new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "peak " + peak + " is given"
                             + " by " + copies + " rows of this spectrum; each peak of a spectrum needs its own index"
                             + " (the arrays are ordered by it)");
+                }
+                if (peak != k) {
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "the peaks of a spectrum"
+                            + " must be numbered 0, 1, 2, ... without a gap, so that the identified peaks carry the"
+                            + " same numbers; after " + (k == 0 ? "none" : "peak " + (k - 1)) + " comes peak " + peak
+                            + " (renumber them, e.g. row_number() over the spectrum's id ordered by peak, minus 1)");
                 }
                 previous = peak;
             }
@@ -358,7 +365,7 @@ public final class SurveyIdentification {
                     Catalyst.string(peakOut, 4, strings.of(lines.label(j)));
                     peakOut.write(5, line);
                     peakOut.write(6, positions[i] - line);
-                    Catalyst.orNull(peakOut, 7, result.normalizedResidual(i));
+                    Catalyst.orNull(peakOut, 7, result.normalizedResidual(i, unit));
                 }
                 peaksOut.setOffsetAndSizeFromPreviousCursor(i, at);
             }

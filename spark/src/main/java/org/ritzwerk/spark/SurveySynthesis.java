@@ -9,6 +9,7 @@ import org.apache.spark.sql.Row;
 import org.apache.spark.sql.catalyst.InternalRow;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeArrayWriter;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeRowWriter;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.synth.Instrument;
@@ -131,6 +132,19 @@ public final class SurveySynthesis {
             double velocity = f.number(row, id, 5);
             double resolvingPower = f.number(row, id, 6);
             long seed = f.whole(row, id, 7);
+            java.util.Set<Species> named = new java.util.HashSet<>();
+            for (String name : names) {
+                Species species;
+                try {
+                    species = Species.parse(name.strip());
+                } catch (IllegalArgumentException e) {
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "species", e.getMessage());
+                }
+                if (!named.add(species)) {
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "species", "names "
+                            + species.notation() + " twice (as '" + name.strip() + "'); give each species once");
+                }
+            }
             if (!(temperature > 0)) {
                 throw new SparkRowException(SparkRowException.BAD_FIELD, id, "temperature_k", "is " + temperature
                         + "; it must be above 0 K");

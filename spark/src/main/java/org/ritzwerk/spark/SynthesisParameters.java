@@ -18,7 +18,7 @@ import org.ritzwerk.medium.Medium;
  * <p>An immutable, serialisable value (Spark broadcasts it once per job); the canonical
  * constructor checks every field as the engine does.
  *
- * @param fromNm     the grid's first pixel edge, nm in {@code medium}
+ * @param fromNm     the grid's first pixel edge, nm in {@code medium} (not converted between media)
  * @param toNm       its last pixel edge, nm
  * @param pixels     the number of pixels (a linear grid)
  * @param medium     the axis medium: "air", "vacuum" or "air(&lt;model&gt;)"
@@ -56,6 +56,7 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      */
     public SynthesisParameters {
         dataFiles = List.copyOf(dataFiles);
+        Setups.requireDistinct("dataFiles", dataFiles, String::strip);
         PixelGrid.linear(fromNm, toNm, pixels);
         if (!(fromNm > 0)) {
             throw new IllegalArgumentException("the grid must start above 0 nm, got " + fromNm);
@@ -75,14 +76,16 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
     }
 
     /**
-     * @param fromNm first pixel edge, nm in air
+     * @param fromNm first pixel edge, nm in the axis medium (vacuum here; after
+     *               {@link #withMedium} in that medium, as {@code synth --from "650 nm air" --medium
+     *               air} takes it: the edges are never converted between media)
      * @param toNm   last pixel edge, nm
      * @param pixels number of pixels
-     * @return the {@code synth} command's defaults on that grid: air, model qed, n up to 30,
+     * @return the {@code synth} command's defaults on that grid: vacuum, model qed, n up to 30,
      *         renderer auto, 10000 peak counts, Poisson noise with read noise 0
      */
     public static SynthesisParameters linear(double fromNm, double toNm, int pixels) {
-        return new SynthesisParameters(fromNm, toNm, pixels, "air", "qed", 30, "auto", 10_000, 0, List.of());
+        return new SynthesisParameters(fromNm, toNm, pixels, "vacuum", "qed", 30, "auto", 10_000, 0, List.of());
     }
 
     /**

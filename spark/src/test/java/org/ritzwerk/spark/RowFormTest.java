@@ -94,7 +94,57 @@ class RowFormTest {
         List<Row> noId = List.of(RowFactory.create(null, new Double[] {486.1}, new Double[] {1e-3}, null, null));
         message = SurveyIdentificationTest.failure(() -> job.identify(
                 spark.createDataFrame(noId, NULLABLE_PEAK_LISTS)).spectra().count());
-        assertTrue(message.contains("row 'null', field 'id': the id is null"), message);
+        assertTrue(message.contains("field 'id': a row's id is null"), message);
+    }
+
+    /**
+     * Column names are found regardless of case, as Spark resolves them by default: a scenes table
+     * whose optional columns read {@code Abundances} and {@code Electron_Density_m3} gives what
+     * the documented names give (they were passed over, so the density and abundances were
+     * silently left out). Two columns that differ only in case are refused.
+     */
+    @Test
+    void columnNamesAreReadRegardlessOfCase() {
+        SparkSession spark = LocalSpark.session();
+        List<Row> scenes = List.of(RowFactory.create("hot", new String[] {"H I", "He II"}, new double[] {1, 0.2},
+                20_000.0, 1e22, 0.0, 5000.0, 7L));
+        Dataset<Row> documented = spark.createDataFrame(scenes, Schemas.SCENES);
+        Dataset<Row> otherCase = documented.toDF("ID", "Species", "Abundances", "Temperature_K", "Electron_Density_m3",
+                "Velocity_M_S", "Resolving_Power", "Seed");
+        SurveySynthesis synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 400).withModel("qed", 8));
+        assertEquals(synthesis.synthesise(documented).collectAsList(), synthesis.synthesise(otherCase).collectAsList());
+        String message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(documented.select(
+                org.apache.spark.sql.functions.col("*"), documented.col("abundances").as("Abundances"))).count());
+        assertTrue(message.contains("field 'abundances': the scene table has two columns of this name apart from case"
+                + " ('abundances', 'Abundances')"), message);
+    }
+
+    /**
+     * A row whose fields each pass their checks but which the engine cannot use together fails the
+     * job naming the row (the engine's message used to escape without it): an abundance beyond
+     * what a double can carry, a peak so close to zero wavelength that the velocity search's window
+     * overflows. A scene naming one species twice is refused as the command line refuses it.
+     */
+    @Test
+    void aRowTheEngineRefusesIsNamed() {
+        SparkSession spark = LocalSpark.session();
+        SurveySynthesis synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 100).withModel("qed", 8));
+        List<Row> faint = List.of(RowFactory.create("faint", new String[] {"H I"}, new double[] {1e-320}, 8000.0,
+                null, 0.0, 5000.0, 1L));
+        String message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(
+                spark.createDataFrame(faint, Schemas.SCENES)).count());
+        assertTrue(message.contains("row 'faint': abundance of H I must be 1e-100 to 1e100"), message);
+        List<Row> twice = List.of(RowFactory.create("twice", new String[] {"H I", "H"}, null, 8000.0, null, 0.0,
+                5000.0, 1L));
+        message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(
+                spark.createDataFrame(twice, Schemas.SCENES)).count());
+        assertTrue(message.contains("row 'twice', field 'species': names H I twice (as 'H'); give each species once"),
+                message);
+        List<Row> tiny = List.of(RowFactory.create("tiny", new double[] {1e-300}, new double[] {1e-303}, null, null));
+        message = SurveyIdentificationTest.failure(() -> SurveyIdentification.of(IdentificationParameters
+                .perSpectrumWindow(List.of("H I"), List.of()).withVelocitySearch(1e5)).identify(
+                        spark.createDataFrame(tiny, Schemas.PEAK_LISTS)).spectra().count());
+        assertTrue(message.startsWith("row 'tiny': "), message);
     }
 
     /**
@@ -184,6 +234,11 @@ class RowFormTest {
                 Schemas.SCIENCE), spark.createDataFrame(calibrations.subList(0, 2), Schemas.CALIBRATIONS)).count());
         assertEquals("row 'star-1', field 'id': the science table has 2 rows with this id; each row needs its own id"
                 + " (the outputs are keyed by it)", message);
+        // Counts that are not numbers are refused, as the calibrate command refuses them in a file.
+        List<Row> nan = List.of(RowFactory.create("star-3", "cal-1", new double[] {1, Double.NaN, 1, 1}));
+        message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(spark.createDataFrame(nan,
+                Schemas.SCIENCE), spark.createDataFrame(calibrations.subList(0, 2), Schemas.CALIBRATIONS)).count());
+        assertEquals("row 'star-3', field 'counts': element 1 is NaN; each must be finite", message);
     }
 
     /** A saved calibration of 4 pixels, wavelength = a0 + 1 nm x (pixel - 1.5) / 1.5, air. */

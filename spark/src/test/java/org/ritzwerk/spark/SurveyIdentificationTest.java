@@ -256,6 +256,55 @@ class SurveyIdentificationTest {
         return id.count(Identification.MATCHED);
     }
 
+    /**
+     * Peaks in cm-1: the residual (position minus line, in cm-1) and residual_sigma share one sign,
+     * the opposite of the wavelength's normalised residual, as the identify command prints them
+     * (they had opposite signs on Spark).
+     */
+    @Test
+    void aResidualInWavenumbersAndItsSigmaShareOneSign() {
+        SparkSession spark = LocalSpark.session();
+        List<Fixtures.PeakListData> lists = new ArrayList<>();
+        for (Fixtures.PeakListData list : Fixtures.peakLists(HYDROGEN, 4, 10, 1, 23L)) {
+            int n = list.nm().length;
+            double[] k = new double[n];
+            double[] sigma = new double[n];
+            for (int i = 0; i < n; i++) {
+                k[i] = 1e7 / list.nm()[i];
+                sigma[i] = list.sigma()[i] * 1e7 / (list.nm()[i] * list.nm()[i]);
+            }
+            lists.add(new Fixtures.PeakListData(list.id(), k, sigma, list.photons(), list.width()));
+        }
+        Unit perCm = Unit.fromSymbol("cm-1").orElseThrow();
+        List<Row> rows = SurveyIdentification.of(IdentificationParameters.perSpectrumWindow(HYDROGEN, List.of())
+                .withUnit("cm-1", "vacuum").withVelocitySearch(100e3)).identify(Fixtures.peakListTable(spark, lists, 2))
+                .spectra().collectAsList();
+        Library library = new Library(HYDROGEN, false);
+        int matched = 0;
+        for (Row row : rows) {
+            Fixtures.PeakListData list = lists.stream().filter(l -> l.id().equals(row.getString(0))).findFirst()
+                    .orElseThrow();
+            PeakList peaks = PeakList.of(list.nm(), list.sigma(), list.photons(), perCm, Medium.vacuum());
+            double[] window = library.search.candidateWindow(peaks);
+            Identification id = library.search.run(peaks, library.candidates(window[0], window[1]).catalog())
+                    .identification();
+            assertNull(row.getAs("failure"), list.id());
+            List<Row> peakRows = row.getList(1);
+            for (int i = 0; i < peakRows.size(); i++) {
+                Row p = peakRows.get(i);
+                if (p.isNullAt(7)) {
+                    continue;
+                }
+                matched++;
+                assertEquals(id.normalizedResidual(i, perCm), p.getDouble(7), list.id() + " peak " + i);
+                assertEquals(-id.normalizedResidual(i), p.getDouble(7));
+                assertTrue(Math.signum(p.getDouble(6)) == Math.signum(p.getDouble(7)) || p.getDouble(6) == 0,
+                        list.id() + " peak " + i + ": residual " + p.getDouble(6) + ", sigma " + p.getDouble(7));
+            }
+        }
+        assertTrue(matched >= 4 * 8, "matched peaks: " + matched);
+    }
+
     @Test
     void onePeakPerRowGroupsIntoTheSamePeakLists() {
         SparkSession spark = LocalSpark.session();
@@ -314,6 +363,15 @@ class SurveyIdentificationTest {
         List<Row> unique = perPeak.subList(0, 6);
         assertEquals(2, SurveyIdentification.peakLists(spark.createDataFrame(unique, Schemas.PEAK_ROWS))
                 .collectAsList().size());
+
+        // A gap: peaks 0 and 5 would come out as 0 and 1, so no identified peak could be joined back.
+        List<Row> gap = List.of(RowFactory.create("d", 0, 486.1, 1e-3, null, null),
+                RowFactory.create("d", 5, 487.1, 1e-3, null, null));
+        message = failure(() -> SurveyIdentification.peakLists(spark.createDataFrame(gap, Schemas.PEAK_ROWS))
+                .collectAsList());
+        assertTrue(message.startsWith("row 'd', field 'peak': the peaks of a spectrum must be numbered 0, 1, 2, ..."
+                + " without a gap, so that the identified peaks carry the same numbers; after peak 0 comes peak 5"),
+                message);
     }
 
     /** The per-peak schema with a nullable peak column, as a table read from files may have it. */

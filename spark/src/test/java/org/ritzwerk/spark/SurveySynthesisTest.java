@@ -30,7 +30,7 @@ import org.ritzwerk.refdata.DataContext;
  */
 class SurveySynthesisTest {
 
-    private static final SynthesisParameters GRID = SynthesisParameters.linear(640, 670, 1500).withModel("qed", 12)
+    private static final SynthesisParameters GRID = SynthesisParameters.linear(640, 670, 1500).withMedium("air").withModel("qed", 12)
             .withCounts(5000, 3);
 
     /** The library as the synth command composes one scene (ions first, then alkali atoms). */

@@ -61,6 +61,7 @@ class UserGuideTest {
         calibrations.write().parquet(out + "/calibrations.parquet");
         Dataset<Row> calibrated = SurveyCalibration.apply(spark.read().parquet(scienceFiles),
                 spark.read().parquet(out + "/calibrations.parquet"));          // wavelengths_nm per pixel
+        calibrated.write().parquet(out + "/calibrated.parquet");
 
         // Synthesis: scene parameters (id, species, abundances, temperature_k, electron_density_m3,
         // velocity_m_s, resolving_power, seed) -> spectra with their truth.
@@ -73,7 +74,7 @@ class UserGuideTest {
         assertEquals(48, spark.read().parquet(out + "/identified-peaks.parquet").count());
         Row calibration = spark.read().parquet(out + "/calibrations.parquet").first();
         assertTrue(calibration.isNullAt(calibration.fieldIndex("failure")), "lamp-1 calibrates");
-        Row star = calibrated.first();
+        Row star = spark.read().parquet(out + "/calibrated.parquet").first();
         assertEquals(Fixtures.PIXELS, star.getList(star.fieldIndex("wavelengths_nm")).size());
         assertEquals(4, spark.read().parquet(out + "/spectra.parquet").filter("failure IS NULL").count());
         identified.spectra().unpersist();
