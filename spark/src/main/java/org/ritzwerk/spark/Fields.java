@@ -73,8 +73,13 @@ final class Fields implements Serializable {
             }
             DataType type = actual.fields()[at].dataType();
             if (!sameType(type, fields[k].dataType())) {
+                String wanted = fields[k].dataType().simpleString();
+                boolean numeric = wanted.contains("double") && type.simpleString().matches(
+                        "(array<)?(tinyint|smallint|int|bigint|float|decimal.*)>?");
                 throw new SparkRowException(SparkRowException.BAD_SCHEMA, null, fields[k].name(), "the " + table
-                        + " table has it as " + type.simpleString() + ", not " + fields[k].dataType().simpleString());
+                        + " table has it as " + type.simpleString() + ", not " + wanted + (numeric ? " (JSON reads"
+                        + " whole numbers as integers: cast it, col(\"" + present.get(at) + "\").cast(\"" + wanted
+                        + "\"))" : ""));
             }
             index[k] = at;
             columns[k] = present.get(at);

@@ -413,6 +413,13 @@ class SurveyIdentificationTest {
         assertEquals(SparkRowException.BAD_SCHEMA, schema.code());
         assertTrue(schema.getMessage().startsWith("field 'positions': the peak-list table has no such column"),
                 schema.getMessage());
+        // Whole numbers, as JSON reads them, are refused with the cast that fixes them.
+        Dataset<Row> whole = spark.createDataFrame(rows, Schemas.PEAK_LISTS).withColumn("positions",
+                org.apache.spark.sql.functions.col("positions").cast("array<bigint>"));
+        schema = assertThrows(SparkRowException.class, () -> job.identify(whole));
+        assertEquals("field 'positions': the peak-list table has it as array<bigint>, not array<double> (JSON reads"
+                + " whole numbers as integers: cast it, col(\"positions\").cast(\"array<double>\"))",
+                schema.getMessage());
     }
 
     /** @return the message of the SparkRowException that failed the job */
