@@ -19,8 +19,10 @@ import org.ritzwerk.quantity.Unit;
  * {@code identify} command's options, with the same defaults.
  *
  * <p>The candidate lines are built from these settings once per partition, in the command's
- * order: alkali atoms of {@code species}, then its one-electron ions (model {@code model}, upper
- * n up to {@code nMax}, multiplets unless {@code components}), then the {@code lineSets}. Over a
+ * order: the Ritz lines of its species with a level list (He I: E1 and LS rules, the context's
+ * A values), then alkali atoms of {@code species}, then its one-electron ions (model
+ * {@code model}, upper n up to {@code nMax}, multiplets unless {@code components}), then the
+ * {@code lineSets}. Over a
  * fixed window ({@link #inWindow}) every spectrum meets the same catalogue (relative strengths
  * are normalised over it); {@link #perSpectrumWindow(List, List)} instead builds each spectrum's
  * catalogue over its own peaks' window, exactly as the command does for one peak file.

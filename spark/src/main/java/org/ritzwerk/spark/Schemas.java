@@ -242,8 +242,9 @@ public final class Schemas {
 
     /**
      * Synthesis input, one row per scene: {@code id} string; {@code species} array&lt;string&gt;
-     * (one-electron ions such as {@code "H I"}, {@code "He II"} and neutral alkali atoms such as
-     * {@code "Na I"}); {@code abundances} array&lt;double&gt;, nullable (relative numbers of
+     * (one-electron ions such as {@code "H I"}, {@code "He II"}, neutral alkali atoms such as
+     * {@code "Na I"}, and species with a level list whose lines have A values, such as
+     * {@code "He I"}); {@code abundances} array&lt;double&gt;, nullable (relative numbers of
      * atoms, one per species; 1 each when null); {@code temperature_k}; {@code electron_density_m3},
      * nullable (Saha balance and Stark widths when given); {@code velocity_m_s} (line-of-sight,
      * positive away); {@code resolving_power} (the instrument's lambda / FWHM); {@code seed} long

@@ -19,8 +19,10 @@ import org.apache.spark.sql.types.StructType;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.DataLines;
 
 import static org.apache.spark.sql.functions.broadcast;
 import static org.apache.spark.sql.functions.col;
@@ -74,33 +76,38 @@ final class Setups {
     }
 
     /** The species of a parameter list, sorted as the command line sorts them. */
-    record Atoms(List<Ion> ions, List<AlkaliAtom> alkalis) {
+    record Atoms(List<Ion> ions, List<AlkaliAtom> alkalis, List<RitzLevels> levels) {
     }
 
     /**
      * @param data    the context
-     * @param species species notations: one-electron ions and neutral alkali atoms
+     * @param species species notations: one-electron ions, neutral alkali atoms, and species with
+     *                a level list in the context (He I, Sr I), as the commands sort them
      * @param tierId  the ions' level model
-     * @return their models, ions and alkali atoms apart, each in the given order
-     * @throws IllegalArgumentException for a species that is neither
+     * @return their models, ions, alkali atoms and level lists apart, each in the given order
+     * @throws IllegalArgumentException for a species that is none of these
      */
     static Atoms atoms(DataContext data, List<String> species, String tierId) {
         Tier tier = Tier.fromId(tierId);
         List<Ion> ions = new ArrayList<>();
         List<AlkaliAtom> alkalis = new ArrayList<>();
+        List<RitzLevels> levels = new ArrayList<>();
         for (String text : species) {
             Species parsed = Species.parse(text.strip());
             if (parsed.isHydrogenLike()) {
                 ions.add(new Ion(parsed, HydrogenLikeModel.of(data.nucleus(parsed), tier)));
             } else if (parsed.charge() == 0 && data.alkaliSpecies().stream().anyMatch(s -> s.z() == parsed.z())) {
                 alkalis.add(data.alkaliAtom(parsed));
+            } else if (data.levelList(parsed).isPresent()) {
+                levels.add(DataLines.levels(data, parsed));
             } else {
                 throw new IllegalArgumentException(parsed.notation() + ": the engine's lines cover one-electron ions"
-                        + " (H I, D I, He II, C VI, ...) and the neutral alkali atoms "
-                        + data.alkaliSpecies().stream().map(Species::notation).toList());
+                        + " (H I, D I, He II, C VI, ...), the neutral alkali atoms "
+                        + data.alkaliSpecies().stream().map(Species::notation).toList() + " and the species with a"
+                        + " level list " + data.levelSpecies().stream().map(Species::notation).toList());
             }
         }
-        return new Atoms(List.copyOf(ions), List.copyOf(alkalis));
+        return new Atoms(List.copyOf(ions), List.copyOf(alkalis), List.copyOf(levels));
     }
 
     /**

@@ -35,10 +35,13 @@ import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.engine.identify.ShiftSearch;
 import org.ritzwerk.engine.identify.Tolerance;
 import org.ritzwerk.engine.plasma.PlasmaEstimate;
+import org.ritzwerk.engine.lines.LineSet;
+import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.DataLines;
 
 /**
  * Identification of many peak lists on Spark: for every row of a {@link Schemas#PEAK_LISTS}
@@ -193,6 +196,8 @@ public final class SurveyIdentification {
         private final IdentificationParameters p;
         private final DataContext data;
         private final Setups.Atoms atoms;
+        /** The Ritz lines of the level-list species (E1 and LS rules, the context's A values). */
+        private final List<LineSet> levelLines = new java.util.ArrayList<>();
         private final IdentificationSearch search;
         private final PlasmaEstimate estimate;
         private final Unit unit;
@@ -221,6 +226,10 @@ public final class SurveyIdentification {
             this.p = p;
             this.data = Setups.context(p.dataFiles());
             this.atoms = Setups.atoms(data, p.species(), p.model());
+            for (RitzLevels levels : atoms.levels()) {
+                levelLines.add(LineSet.ofRitz(DataLines.ritzLines(data, levels.species()).withLsRules(true)
+                        .compute(levels)));
+            }
             Tolerance tolerance = Tolerance.parse(p.tolerance());
             this.kSigma = tolerance.kind() == Tolerance.Kind.K_SIGMA;
             IdentificationSearch s = IdentificationSearch.of(Identifier.of(tolerance));
@@ -244,11 +253,17 @@ public final class SurveyIdentification {
                     : candidates(new double[] {p.windowFromNm() * 1e-9, p.windowToNm() * 1e-9});
         }
 
-        /** The command line's candidates: alkali atoms, then one-electron ions, then line sets. */
+        /**
+         * The command line's candidates: level-list species' Ritz lines, then alkali atoms, then
+         * one-electron ions, then line sets.
+         */
         private Candidates candidates(double[] window) {
             Candidates.Builder builder = Candidates.inWindow(window[0], window[1]);
             if (!Double.isNaN(p.excitationTemperature())) {
                 builder.excitationTemperature(p.excitationTemperature());
+            }
+            for (LineSet lines : levelLines) {
+                builder.lineSet(lines);
             }
             for (AlkaliAtom atom : atoms.alkalis()) {
                 builder.alkali(atom, p.nMax(), done -> { });

@@ -11,6 +11,8 @@ import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeArrayWriter;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeRowWriter;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.ritz.RitzLevels;
+import org.ritzwerk.engine.ritz.RitzTransitions;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.PixelGrid;
@@ -20,11 +22,13 @@ import org.ritzwerk.engine.synth.SceneException;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.DataLines;
 
 /**
  * Synthetic spectra in bulk on Spark: for every row of a {@link Schemas#SCENES} table, exactly
  * the library's {@code Scene.builder(grid)...build().render(1)} as the {@code synth} command
- * composes it (one-electron ions first, then alkali atoms, each with its abundance; temperature,
+ * composes it (one-electron ions first, then alkali atoms, then species with a level list such as
+ * He I, each with its abundance; temperature,
  * electron density, velocity, resolving power and the row's own noise seed), giving one
  * {@link Schemas#SPECTRA} row with the counts, the expected counts and the true lines.
  *
@@ -94,6 +98,7 @@ public final class SurveySynthesis {
         private final Medium medium;
         private final Renderer renderer;
         private final Map<String, Setups.Atoms> species = new HashMap<>();
+        private final Map<Species, RitzTransitions> transitions = new HashMap<>();
         private final Catalyst.Strings strings = new Catalyst.Strings();
         /** The output row's writers: the spectrum, its arrays of doubles and its true lines. */
         private final UnsafeRowWriter out = new UnsafeRowWriter(Schemas.SPECTRA.size(), 65536);
@@ -107,6 +112,12 @@ public final class SurveySynthesis {
             this.grid = p.grid();
             this.medium = Medium.parse(p.medium());
             this.renderer = p.rendererChoice();
+        }
+
+        /** A level list's Ritz lines (E1 and LS rules, the context's A values), computed at first use. */
+        private RitzTransitions transitions(RitzLevels levels) {
+            return transitions.computeIfAbsent(levels.species(),
+                    s -> DataLines.ritzLines(data, s).compute(levels));
         }
 
         /** The species' model, made at its first use in this partition. */
@@ -188,6 +199,13 @@ public final class SurveySynthesis {
             }
             SyntheticSpectrum spectrum;
             try {
+                // Then the level-list species (He I), as the command adds them.
+                for (int k = 0; k < names.length; k++) {
+                    for (RitzLevels levels : atoms(id, names[k]).levels()) {
+                        builder.levels(transitions(levels), abundances == null ? 1.0 : abundances[k],
+                                data.nucleus(levels.species()));
+                    }
+                }
                 spectrum = builder.build().render(1);
             } catch (SceneException e) {
                 out.reset();

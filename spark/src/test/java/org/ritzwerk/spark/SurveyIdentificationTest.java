@@ -30,10 +30,12 @@ import org.ritzwerk.engine.identify.LineCatalog;
 import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.engine.identify.ShiftSearch;
 import org.ritzwerk.engine.identify.Tolerance;
+import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.plasma.PlasmaEstimate;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.DataLines;
 
 /**
  * Identification on Spark (local[2]) against the library called directly on the same peak lists:
@@ -67,11 +69,21 @@ class SurveyIdentificationTest {
 
         final PlasmaEstimate estimate = PlasmaEstimate.defaults().withInstrumentFwhm(0.05);
 
+        /** The command's order: level-list species' Ritz lines (He I), then one-electron ions. */
         Candidates candidates(double lo, double hi) {
             Candidates.Builder builder = Candidates.inWindow(lo, hi);
             for (String s : this.species) {
                 Species species = Species.parse(s);
-                builder.hydrogenLike(species, HydrogenLikeModel.of(data.nucleus(species), Tier.QED), 30, false);
+                if (!species.isHydrogenLike()) {
+                    builder.lineSet(LineSet.ofRitz(DataLines.ritzLines(data, species).withLsRules(true)
+                            .compute(DataLines.levels(data, species))));
+                }
+            }
+            for (String s : this.species) {
+                Species species = Species.parse(s);
+                if (species.isHydrogenLike()) {
+                    builder.hydrogenLike(species, HydrogenLikeModel.of(data.nucleus(species), Tier.QED), 30, false);
+                }
             }
             return builder.build();
         }
@@ -254,6 +266,51 @@ class SurveyIdentificationTest {
             assertEquals(e.note(), r.getString(6));
         }
         return id.count(Identification.MATCHED);
+    }
+
+    /**
+     * He I from its level list is a species on Spark as in the identify command: peaks at the
+     * vacuum Ritz wavelengths of He I lines with A (and H I's) give the library's identification
+     * with the command's candidates, level-list lines first.
+     */
+    @Test
+    void heliumFromItsLevelListIsIdentifiedAsByTheCommand() {
+        SparkSession spark = LocalSpark.session();
+        List<String> species = List.of("He I", "H I");
+        Library library = new Library(species, false, IdentificationSearch.of(Identifier.of(Tolerance.parse(
+                "5 sigma"))));
+        LineCatalog lines = library.candidates(380e-9, 700e-9).catalog();
+        List<Fixtures.PeakListData> lists = new ArrayList<>();
+        for (int k = 0; k < 3; k++) {
+            List<Double> nm = new ArrayList<>();
+            for (int j = k; j < lines.size(); j += 3) {
+                if (lines.species(j).equals(Species.parse("He I")) || j % 5 == 0) {
+                    nm.add(lines.wavelength(j) * 1e9 + 2e-4 * ((j % 7) - 3) / 3.0);
+                }
+            }
+            double[] positions = nm.stream().mapToDouble(Double::doubleValue).sorted().toArray();
+            double[] sigma = new double[positions.length];
+            double[] photons = new double[positions.length];
+            double[] width = new double[positions.length];
+            Arrays.fill(sigma, 2e-4);
+            Arrays.fill(photons, 100);
+            Arrays.fill(width, 0.05);
+            lists.add(new Fixtures.PeakListData("he-" + k, positions, sigma, photons, width));
+        }
+        List<Row> rows = SurveyIdentification.of(IdentificationParameters.perSpectrumWindow(species, List.of()))
+                .identify(Fixtures.peakListTable(spark, lists, 2)).spectra().collectAsList();
+        int helium = 0;
+        for (Row row : rows) {
+            Fixtures.PeakListData list = lists.stream().filter(l -> l.id().equals(row.getString(0))).findFirst()
+                    .orElseThrow();
+            PeakList peaks = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
+            double[] window = library.search.candidateWindow(peaks);
+            compare(library, library.candidates(window[0], window[1]), list, row);
+            for (Row p : row.<Row>getList(1)) {
+                helium += "He I".equals(p.getString(3)) ? 1 : 0;
+            }
+        }
+        assertTrue(helium > 20, "He I peaks identified: " + helium);
     }
 
     /**

@@ -22,6 +22,7 @@ import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.DataLines;
 
 /**
  * Synthesis on Spark (local[2]) against the library's scenes built directly with the same
@@ -33,7 +34,7 @@ class SurveySynthesisTest {
     private static final SynthesisParameters GRID = SynthesisParameters.linear(640, 670, 1500).withMedium("air").withModel("qed", 12)
             .withCounts(5000, 3);
 
-    /** The library as the synth command composes one scene (ions first, then alkali atoms). */
+    /** The library as the synth command composes one scene (ions, then alkali atoms, then level lists). */
     private static SyntheticSpectrum library(DataContext data, String[] species, double[] abundances, double kelvin,
             Double density, double velocity, double resolvingPower, long seed) {
         Scene.Builder b = Scene.builder(PixelGrid.linear(640, 670, 1500)).medium(Medium.air())
@@ -50,11 +51,22 @@ class SurveySynthesisTest {
         }
         for (int k = 0; k < species.length; k++) {
             Species s = Species.parse(species[k]);
-            if (!s.isHydrogenLike()) {
+            if (!s.isHydrogenLike() && isAlkali(data, s)) {
                 b.alkali(data.alkaliAtom(s), abundances[k], data.nucleus(s));
             }
         }
-        return b.noise(3, seed).build().render(1);
+        b.noise(3, seed);
+        for (int k = 0; k < species.length; k++) {
+            Species s = Species.parse(species[k]);
+            if (!s.isHydrogenLike() && !isAlkali(data, s)) {
+                b.levels(DataLines.levels(data, s), DataLines.ritzLines(data, s), abundances[k], data.nucleus(s));
+            }
+        }
+        return b.build().render(1);
+    }
+
+    private static boolean isAlkali(DataContext data, Species s) {
+        return data.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z());
     }
 
     @Test
@@ -68,6 +80,11 @@ class SurveySynthesisTest {
                 -30e3, 5000.0, 3L));
         scenes.add(RowFactory.create("s3", new String[] {"H I"}, null, 9000.0, null, 0.0, 8000.0, 4L));
         scenes.add(RowFactory.create("dark", new String[] {"K I"}, null, 9000.0, null, 0.0, 8000.0, 5L));
+        // He I from its level list (667.8 nm in the window), Saha-balanced with He II by the density.
+        scenes.add(RowFactory.create("s4", new String[] {"He I", "H I", "He II"}, new double[] {1, 0.5, 1}, 20000.0,
+                1e22, 5e3, 10000.0, 6L));
+        // Sr I's level list has no A values: the job refuses the scene as the command does.
+        scenes.add(RowFactory.create("sr", new String[] {"Sr I"}, null, 9000.0, null, 0.0, 8000.0, 7L));
         List<Row> out = SurveySynthesis.of(GRID).synthesise(spark.createDataFrame(scenes, Schemas.SCENES)
                 .repartition(2)).collectAsList();
         assertEquals(scenes.size(), out.size());
@@ -79,6 +96,14 @@ class SurveySynthesisTest {
             java.util.Arrays.fill(abundances, 1.0);
             if (!in.isNullAt(2)) {
                 abundances = (double[]) in.get(2);
+            }
+            if (row.getString(0).equals("sr")) {
+                org.ritzwerk.engine.synth.SceneException refused = org.junit.jupiter.api.Assertions.assertThrows(
+                        org.ritzwerk.engine.synth.SceneException.class, () -> library(data, species, new double[] {1},
+                                9000, null, 0, 8000, 7L));
+                assertEquals("synth.no-rates", row.getAs("failure_code"));
+                assertEquals(refused.getMessage(), row.getAs("failure"));
+                continue;
             }
             if (row.getString(0).equals("dark")) {
                 // K I has no line between 640 and 670 nm (levels up to n = 12): the job refuses the scene.
@@ -96,6 +121,9 @@ class SurveySynthesisTest {
             assertArrayEquals(s.expectedCounts(), toArray(row.getList(2)));
             List<Row> lines = row.getList(3);
             assertEquals(s.lines().size(), lines.size());
+            if (row.getString(0).equals("s4")) {
+                assertTrue(lines.stream().anyMatch(l -> l.getString(0).startsWith("He I 1s3d 1D2")), "He I 667.8 nm");
+            }
             for (int i = 0; i < lines.size(); i++) {
                 Row line = lines.get(i);
                 assertEquals(s.lines().label(i), line.getString(0));

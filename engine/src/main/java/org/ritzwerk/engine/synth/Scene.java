@@ -455,9 +455,24 @@ public final class Scene {
         public Builder levels(RitzLevels levels, RitzLines job, double abundance, Nucleus nucleus) {
             Objects.requireNonNull(levels, "levels");
             Objects.requireNonNull(job, "job");
+            return levels(job.compute(levels), abundance, nucleus);
+        }
+
+        /**
+         * As {@link #levels(RitzLevels, RitzLines, double, Nucleus)} with the Ritz job's lines
+         * already computed, for many scenes of one atom (the lines are computed once).
+         *
+         * @param lines     the lines of a level list, {@link RitzLines#compute}
+         * @param abundance its number (or number density) of atoms of that stage
+         * @param nucleus   its nucleus
+         * @return this builder
+         * @throws SceneException ({@link SceneException#NO_RATES}) when no line has an A
+         */
+        public Builder levels(RitzTransitions lines, double abundance, Nucleus nucleus) {
+            Objects.requireNonNull(lines, "lines");
             Objects.requireNonNull(nucleus, "nucleus");
+            RitzLevels levels = lines.levels();
             abundance("abundance of " + levels.species().notation(), abundance);
-            RitzTransitions lines = job.compute(levels);
             boolean any = false;
             for (int i = 0; i < lines.size() && !any; i++) {
                 any = lines.einsteinA(i).isPresent();
