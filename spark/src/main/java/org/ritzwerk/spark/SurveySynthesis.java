@@ -172,16 +172,14 @@ public final class SurveySynthesis {
                 throw new SparkRowException(SparkRowException.BAD_FIELD, id, "resolving_power", "is "
                         + resolvingPower + "; it must be above 0");
             }
-            Scene.Builder builder;
-            try {
-                builder = Scene.builder(grid).medium(medium).instrument(Instrument.ofResolvingPower(resolvingPower))
-                        .naturalWidths(false).renderer(renderer).temperature(temperature).nMax(p.nMax())
-                        .velocity(velocity).peakCounts(p.peakCounts());
-                if (!Double.isNaN(density)) {
-                    builder.electronDensity(density);
-                }
-            } catch (IllegalArgumentException e) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "scene", e.getMessage());
+            Scene.Builder builder = Scene.builder(grid).medium(medium).naturalWidths(false).renderer(renderer)
+                    .nMax(p.nMax()).peakCounts(p.peakCounts());
+            // The engine's own range checks, each refusal naming the row's field.
+            set(id, "resolving_power", () -> builder.instrument(Instrument.ofResolvingPower(resolvingPower)));
+            set(id, "temperature_k", () -> builder.temperature(temperature));
+            set(id, "velocity_m_s", () -> builder.velocity(velocity));
+            if (!Double.isNaN(density)) {
+                set(id, "electron_density_m3", () -> builder.electronDensity(density));
             }
             // The command line's order: one-electron ions first, then alkali atoms.
             for (int k = 0; k < names.length; k++) {
@@ -243,6 +241,15 @@ public final class SurveySynthesis {
             out.setNullAt(4);
             out.setNullAt(5);
             return out.getRow();
+        }
+
+        /** Applies one setting of the scene, an engine refusal naming the row's field. */
+        private static void set(String id, String field, Runnable setting) {
+            try {
+                setting.run();
+            } catch (IllegalArgumentException e) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, field, e.getMessage());
+            }
         }
 
         /** Writes the doubles as the output row's field. */

@@ -134,6 +134,10 @@ class RowFormTest {
         String message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(
                 spark.createDataFrame(faint, Schemas.SCENES)).count());
         assertTrue(message.contains("row 'faint': abundance of H I must be 1e-100 to 1e100"), message);
+        List<Row> hot = List.of(RowFactory.create("hot", new String[] {"H I"}, null, 1e12, null, 0.0, 5000.0, 1L));
+        message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(
+                spark.createDataFrame(hot, Schemas.SCENES)).count());
+        assertTrue(message.startsWith("row 'hot', field 'temperature_k': "), message);
         List<Row> twice = List.of(RowFactory.create("twice", new String[] {"H I", "H"}, null, 8000.0, null, 0.0,
                 5000.0, 1L));
         message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(
