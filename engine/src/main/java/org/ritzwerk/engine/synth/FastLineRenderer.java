@@ -142,7 +142,9 @@ public final class FastLineRenderer {
      * @param gaussianFwhm Gaussian (Doppler) FWHMs before the instrument, not negative
      * @param lorentzFwhm  Lorentzian FWHMs, not negative; each line needs some width once the
      *                     instrument's is added
-     * @param out          pixel fluxes, one per pixel, added to; untouched when a line is refused
+     * @param out          pixel fluxes, one per pixel, added to (each addition at least 0: the
+     *                     transforms' round-off below zero in dark pixels is set to 0); untouched when a
+     *                     line is refused
      * @throws IllegalArgumentException naming the first unusable line and field, or when the
      *         internal grid would exceed {@value #MAX_POINTS} points (lines far narrower than the
      *         pixel range, or one line far wider: use {@link LineRenderer})
@@ -158,12 +160,13 @@ public final class FastLineRenderer {
                     + " internal points (at most " + MAX_POINTS + "): the lines are too narrow for the pixel range, "
                     + "or one is too wide; use the exact renderer");
         }
-        if (falling) {
-            double[] rising = new double[out.length];
-            plan.render(position, flux, gaussianFwhm, lorentzFwhm, rising);
-            LineRenderer.addReversed(rising, out);
-        } else {
-            plan.render(position, flux, gaussianFwhm, lorentzFwhm, out);
+        double[] drawn = new double[out.length];
+        plan.render(position, flux, gaussianFwhm, lorentzFwhm, drawn);
+        // The transforms' round-off leaves dark pixels a hair below zero (1e-12 of the brightest
+        // pixel, say): a flux is never negative, so those are set to zero.
+        for (int p = 0, n = out.length; p < n; p++) {
+            double v = drawn[p] > 0 ? drawn[p] : 0;
+            out[falling ? n - 1 - p : p] += v;
         }
     }
 
