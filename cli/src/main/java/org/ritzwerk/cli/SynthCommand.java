@@ -613,18 +613,18 @@ final class SynthCommand implements Callable<Integer> {
         for (int i = 0; i < order.length; i++) {
             order[i] = i;
         }
-        Arrays.sort(order, (a, b) -> Double.compare(spectrum.lineCounts(b), spectrum.lineCounts(a)));
+        Arrays.sort(order, (a, b) -> Double.compare(spectrum.lineCountsInPixels(b), spectrum.lineCountsInPixels(a)));
         List<Plots.Label> labels = new ArrayList<>();
         double span = grid.highest() - grid.lowest();
         boolean log = plotScale.equals("log");
         // Only lines that show on the chosen scale get a label: on a linear axis a line with a
         // hundredth of the strongest line's counts is a bump a few pixels high at best.
-        double visible = (order.length == 0 ? 0 : spectrum.lineCounts(order[0])) * (log ? 1e-5 : 1e-2);
+        double visible = (order.length == 0 ? 0 : spectrum.lineCountsInPixels(order[0])) * (log ? 1e-5 : 1e-2);
         for (int i : order) {
             double at = lines.position(i);
             boolean crowded = labels.stream().anyMatch(label -> Math.abs(label.x() - at) < 0.012 * span);
             if (labels.size() < 25 && !crowded && at > grid.lowest() && at < grid.highest()
-                    && spectrum.lineCounts(i) > 0 && spectrum.lineCounts(i) >= visible) {
+                    && spectrum.lineCountsInPixels(i) > 0 && spectrum.lineCountsInPixels(i) >= visible) {
                 labels.add(new Plots.Label(at, lines.label(i)));
             }
         }

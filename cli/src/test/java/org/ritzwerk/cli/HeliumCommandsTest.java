@@ -126,9 +126,9 @@ class HeliumCommandsTest {
             }
             String[] c = row.split(",");
             rows.add(c);
-            if (c[4].startsWith("He I") && Double.parseDouble(c[1]) > strongestHe) {
+            if (c[c.length - 1].startsWith("He I") && Double.parseDouble(c[1]) > strongestHe) {
                 strongestHe = Double.parseDouble(c[1]);
-                strongestLabel = c[4];
+                strongestLabel = c[c.length - 1];
             }
         }
         // the brightest He I line of a discharge in the visible is 587.6 nm (2p 3P - 3d 3D) (common practice)
@@ -139,12 +139,12 @@ class HeliumCommandsTest {
                 + "# medium: vacuum\nposition,uncertainty,intensity\n");
         List<String> expected = new ArrayList<>();
         for (String[] c : rows) {
-            boolean singlet = c[4].startsWith("He I") && !c[4].contains(" 3");
-            boolean balmer = c[4].startsWith("H I");
+            boolean singlet = c[c.length - 1].startsWith("He I") && !c[c.length - 1].contains(" 3");
+            boolean balmer = c[c.length - 1].startsWith("H I");
             double nm = Double.parseDouble(c[0]);
             if ((singlet || balmer) && nm > 380 && nm < 700 && Double.parseDouble(c[1]) > 0.01 * strongestHe) {
                 peaks.append(String.format(Locale.ROOT, "%.6f,0.0005,%s%n", nm, c[1]));
-                expected.add(c[4]);
+                expected.add(c[c.length - 1]);
             }
         }
         Path file = dir.resolve("peaks.csv");

@@ -272,8 +272,8 @@ class IdentifyCommandTest {
             if (nm < 380 || nm > 700) {
                 continue;
             }
-            double gauss = Math.hypot(Double.parseDouble(c[2]), nm / 5000);
-            double lorentz = Double.parseDouble(c[3]);
+            double gauss = Math.hypot(Double.parseDouble(c[3]), nm / 5000);
+            double lorentz = Double.parseDouble(c[4]);
             double voigt = 0.5346 * lorentz + Math.sqrt(0.2166 * lorentz * lorentz + gauss * gauss);
             String intensity = intensityFormat.equals("%s") ? c[1]
                     : String.format(java.util.Locale.ROOT, intensityFormat, Double.parseDouble(c[1]));

@@ -142,6 +142,8 @@ class SynthCommandTest {
         String last = lines.get(lines.size() - 1);
         assertTrue(last.endsWith("H I Balmer alpha"), last);
         assertEquals(Double.parseDouble(last.split(",")[1]), total, 1e-4 * total);
+        // counts_in_pixels is the part the pixels hold: their sum, to the renderer's quadrature.
+        assertEquals(Double.parseDouble(last.split(",")[2]), total, 1e-9 * total);
     }
 
     @Test

@@ -16,14 +16,15 @@ import org.ritzwerk.medium.Medium;
  * <pre>
  * # ritzwerk-spectrum-lines 1
  * # medium: air
- * # counts: each line's expected counts summed over all pixels, before noise; ...
+ * # counts: counts is each line's expected counts over its whole profile, before noise; ...
  * # widths: doppler_fwhm_nm is the Gaussian (Doppler) FWHM, lorentz_fwhm_nm the Lorentzian ...
- * wavelength_nm,counts,doppler_fwhm_nm,lorentz_fwhm_nm,line
- * 656.2799905441436,41263.71902356815,0.021418034516043176,0.0,H I Balmer alpha
+ * wavelength_nm,counts,counts_in_pixels,doppler_fwhm_nm,lorentz_fwhm_nm,line
+ * 656.2799905441436,41263.71902356815,41263.71902356815,0.021418034516043176,0.0,H I Balmer alpha
  * </pre>
  * {@code wavelength_nm} is the line centre in nm in the header's {@code medium} (the spectrum's
- * axis medium, Doppler-shifted by the scene's velocity); {@code counts} and the two widths (nm)
- * are not negative; {@code line} is the line's label (one line of text, at most 500 characters,
+ * axis medium, Doppler-shifted by the scene's velocity); {@code counts} (the whole line),
+ * {@code counts_in_pixels} (the part of it the pixels hold; optional when reading, for files
+ * written before it) and the two widths (nm) are not negative; {@code line} is the line's label (one line of text, at most 500 characters,
  * quoted as CSV when it holds a comma, a quote or spaces at its ends). Numbers are written as the
  * shortest decimal that reads back as the same double, so {@link #read(String, String)} gives back
  * what {@link #writeCsv} was given, bit for bit. The header keys {@code counts} and {@code widths}
@@ -40,17 +41,19 @@ public final class SpectrumLineFiles {
     public static final int VERSION = 1;
 
     /** The explanation written under the key {@code counts}. */
-    static final String COUNTS_NOTE = "each line's expected counts summed over all pixels, before noise; less where it"
-            + " lies near or beyond an end of the spectrum";
+    static final String COUNTS_NOTE = "counts is each line's expected counts over its whole profile, before noise"
+            + " (what a fit of the line recovers); counts_in_pixels the part of them the pixels hold (less where the"
+            + " line lies near or beyond an end of the spectrum, or has wings beyond the renderer's window)";
     /** The explanation written under the key {@code widths}. */
     static final String WIDTHS_NOTE = "doppler_fwhm_nm is the Gaussian (Doppler) FWHM, lorentz_fwhm_nm the Lorentzian"
             + " FWHM (collisional, natural, Stark), both in nm; the instrument's response is not included";
 
-    private static final List<String> COLUMNS = List.of("wavelength_nm", "counts", "doppler_fwhm_nm",
-            "lorentz_fwhm_nm", "line");
+    private static final List<String> COLUMNS = List.of("wavelength_nm", "counts", "counts_in_pixels",
+            "doppler_fwhm_nm", "lorentz_fwhm_nm", "line");
     private static final TabularFiles.Spec SPEC = new TabularFiles.Spec(FORMAT, VERSION, null,
-            List.of("medium", "counts", "widths"), List.of("medium"), COLUMNS, COLUMNS,
-            COLUMNS.subList(0, 4), "lines");
+            List.of("medium", "counts", "widths"), List.of("medium"), COLUMNS,
+            List.of("wavelength_nm", "counts", "doppler_fwhm_nm", "lorentz_fwhm_nm", "line"),
+            COLUMNS.subList(0, 5), "lines");
     private static final int MAX_LABEL = 500;
 
     private SpectrumLineFiles() {
@@ -62,14 +65,15 @@ public final class SpectrumLineFiles {
      * @param source      the file name, for messages
      * @param medium      the medium of the wavelengths
      * @param wavelengths line centres in nm
-     * @param counts      each line's expected counts over all pixels
+     * @param counts      each line's expected counts over its whole profile
+     * @param countsInPixels the part of them the pixels hold; null for a file without the column
      * @param dopplerFwhm Doppler (Gaussian) FWHM in nm
      * @param lorentzFwhm Lorentzian FWHM in nm
      * @param labels      the lines' labels
      * @param lines       the 1-based file line of each row
      */
     public record SpectrumLines(String source, Medium medium, double[] wavelengths, double[] counts,
-            double[] dopplerFwhm, double[] lorentzFwhm, List<String> labels, int[] lines) {
+            double[] countsInPixels, double[] dopplerFwhm, double[] lorentzFwhm, List<String> labels, int[] lines) {
 
         /** @return the number of lines */
         public int size() {
@@ -93,6 +97,7 @@ public final class SpectrumLineFiles {
         for (int i = 0; i < lines.size(); i++) {
             check(i, lines.position(i), spectrum.lineCounts(i), lines.gaussianFwhm(i), lines.lorentzFwhm(i),
                     lines.label(i));
+            check(i, lines.position(i), spectrum.lineCountsInPixels(i), 0, 0, lines.label(i));
         }
         out.write("# " + FORMAT + " " + VERSION + "\n");
         out.write("# medium: " + medium.spec() + "\n");
@@ -103,7 +108,7 @@ public final class SpectrumLineFiles {
         for (int i = 0; i < lines.size(); i++) {
             row.setLength(0);
             row.append(lines.position(i)).append(',').append(spectrum.lineCounts(i)).append(',')
-                    .append(lines.gaussianFwhm(i)).append(',').append(lines.lorentzFwhm(i)).append(',');
+                    .append(spectrum.lineCountsInPixels(i)).append(',').append(lines.gaussianFwhm(i)).append(',').append(lines.lorentzFwhm(i)).append(',');
             csvText(row, lines.label(i));
             out.append(row).append('\n');
         }
@@ -168,6 +173,7 @@ public final class SpectrumLineFiles {
         int n = p.rows.size();
         double[] nm = new double[n];
         double[] counts = new double[n];
+        double[] inPixels = p.columnIndex.containsKey("counts_in_pixels") ? new double[n] : null;
         double[] doppler = new double[n];
         double[] lorentz = new double[n];
         List<String> labels = new ArrayList<>(n);
@@ -179,6 +185,9 @@ public final class SpectrumLineFiles {
                 p.rowProblem(row, "wavelength_nm", "data.not-positive", "wavelength_nm must be positive, got 0");
             }
             counts[k] = p.number(row, "counts", true);
+            if (inPixels != null) {
+                inPixels[k] = p.number(row, "counts_in_pixels", true);
+            }
             doppler[k] = p.number(row, "doppler_fwhm_nm", true);
             lorentz[k] = p.number(row, "lorentz_fwhm_nm", true);
             String label = p.text(row, "line");
@@ -189,6 +198,6 @@ public final class SpectrumLineFiles {
             lines[k] = row.line();
         }
         p.throwIfAny();
-        return new SpectrumLines(source, medium, nm, counts, doppler, lorentz, List.copyOf(labels), lines);
+        return new SpectrumLines(source, medium, nm, counts, inPixels, doppler, lorentz, List.copyOf(labels), lines);
     }
 }

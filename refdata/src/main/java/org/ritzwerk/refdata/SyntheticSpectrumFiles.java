@@ -127,6 +127,7 @@ public final class SyntheticSpectrumFiles {
         for (int i = 0; i < lines.size(); i++) {
             SpectrumLineFiles.check(i, lines.position(i), spectrum.lineCounts(i), lines.gaussianFwhm(i),
                     lines.lorentzFwhm(i), lines.label(i));
+            SpectrumLineFiles.check(i, lines.position(i), spectrum.lineCountsInPixels(i), 0, 0, lines.label(i));
         }
         PixelGrid grid = spectrum.grid();
         try (JsonGenerator g = JSON.createGenerator(new NonClosing(out))) {
@@ -182,6 +183,7 @@ public final class SyntheticSpectrumFiles {
                 g.writeStartObject();
                 g.writeNumberProperty("wavelength_nm", lines.position(i));
                 g.writeNumberProperty("counts", spectrum.lineCounts(i));
+                g.writeNumberProperty("counts_in_pixels", spectrum.lineCountsInPixels(i));
                 g.writeNumberProperty("doppler_fwhm_nm", lines.gaussianFwhm(i));
                 g.writeNumberProperty("lorentz_fwhm_nm", lines.lorentzFwhm(i));
                 g.writeStringProperty("line", lines.label(i));
@@ -373,6 +375,8 @@ public final class SyntheticSpectrumFiles {
         int n = linesNode.size();
         double[] nm = new double[n];
         double[] counts = new double[n];
+        // Documents written before counts_in_pixels have none: then null, as in the CSV reader.
+        double[] inPixels = n == 0 || linesNode.get(0).has("counts_in_pixels") ? new double[n] : null;
         double[] doppler = new double[n];
         double[] lorentz = new double[n];
         List<String> labels = new ArrayList<>(n);
@@ -384,17 +388,23 @@ public final class SyntheticSpectrumFiles {
             }
             nm[i] = number(source, line, where, "wavelength_nm");
             counts[i] = number(source, line, where, "counts");
+            if (inPixels != null) {
+                inPixels[i] = number(source, line, where, "counts_in_pixels");
+            }
             doppler[i] = number(source, line, where, "doppler_fwhm_nm");
             lorentz[i] = number(source, line, where, "lorentz_fwhm_nm");
             labels.add(string(source, line, where + ".line", "line"));
             try {
                 SpectrumLineFiles.check(i, nm[i], counts[i], doppler[i], lorentz[i], labels.get(i));
+                if (inPixels != null) {
+                    SpectrumLineFiles.check(i, nm[i], inPixels[i], 0, 0, labels.get(i));
+                }
             } catch (IllegalArgumentException e) {
                 throw fail(source, where + ": " + e.getMessage());
             }
         }
-        SpectrumLineFiles.SpectrumLines lines = new SpectrumLineFiles.SpectrumLines(source, medium, nm, counts, doppler,
-                lorentz, List.copyOf(labels), new int[n]);
+        SpectrumLineFiles.SpectrumLines lines = new SpectrumLineFiles.SpectrumLines(source, medium, nm, counts, inPixels,
+                doppler, lorentz, List.copyOf(labels), new int[n]);
         return new Document(source, medium, grid, Collections.unmodifiableMap(scene), List.copyOf(notes), edges,
                 pixels.wavelengths(), pixels.expectedCounts(), pixels.counts(), lines);
     }

@@ -24,7 +24,7 @@ class SyntheticFilesTest {
     private static SyntheticSpectrum spectrum(double count, double width, String label) {
         return SyntheticSpectrum.of(PixelGrid.of(new double[] {656.0, 656.5, 657.0}), new double[] {1.5, 2},
                 new double[] {count, 3}, Scene.Lines.of(new double[] {656.28}, new double[] {1}, new double[] {0.02},
-                        new double[] {width}, new String[] {label}), new double[] {3.5});
+                        new double[] {width}, new String[] {label}), new double[] {3.5}, new double[] {3.25});
     }
 
     @Test
@@ -43,8 +43,8 @@ class SyntheticFilesTest {
         SpectrumLineFiles.writeCsv(spectrum(1, 0, "Ne I 656, \"strong\""), Medium.vacuum(), truth);
         assertEquals("# ritzwerk-spectrum-lines 1\n# medium: vacuum\n# counts: " + SpectrumLineFiles.COUNTS_NOTE
                 + "\n# widths: " + SpectrumLineFiles.WIDTHS_NOTE + "\n"
-                + "wavelength_nm,counts,doppler_fwhm_nm,lorentz_fwhm_nm,line\n"
-                + "656.28,3.5,0.02,0.0,\"Ne I 656, \"\"strong\"\"\"\n", truth.toString());
+                + "wavelength_nm,counts,counts_in_pixels,doppler_fwhm_nm,lorentz_fwhm_nm,line\n"
+                + "656.28,3.5,3.25,0.02,0.0,\"Ne I 656, \"\"strong\"\"\"\n", truth.toString());
         StringWriter json = new StringWriter();
         SyntheticSpectrumFiles.writeJson(spectrum(1, 0, "H I Balmer alpha"), Medium.air(), "linear", scene,
                 List.of("a note"), json);
@@ -53,7 +53,7 @@ class SyntheticFilesTest {
                 + "\"temperature-k\":9000.0,\"natural-widths\":false},\"notes\":[\"a note\"],"
                 + "\"pixel_edges_nm\":[656.0,656.5,657.0],\"wavelength_nm\":[656.25,656.75],"
                 + "\"expected_counts\":[1.5,2.0],\"counts\":[1.0,3.0],\"lines\":[{\"wavelength_nm\":656.28,"
-                + "\"counts\":3.5,\"doppler_fwhm_nm\":0.02,\"lorentz_fwhm_nm\":0.0,\"line\":\"H I Balmer alpha\"}]}\n",
+                + "\"counts\":3.5,\"counts_in_pixels\":3.25,\"doppler_fwhm_nm\":0.02,\"lorentz_fwhm_nm\":0.0,\"line\":\"H I Balmer alpha\"}]}\n",
                 json.toString());
     }
 

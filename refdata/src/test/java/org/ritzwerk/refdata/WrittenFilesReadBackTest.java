@@ -138,6 +138,7 @@ class WrittenFilesReadBackTest {
         double[] gaussian = new double[lineCount];
         double[] lorentz = new double[lineCount];
         double[] lineCounts = new double[lineCount];
+        double[] inPixels = new double[lineCount];
         String[] label = new String[lineCount];
         for (int i = 0; i < lineCount; i++) {
             position[i] = r.nextInt(6) == 0 ? anyDouble(r, true) : 90 + 1100 * r.nextDouble();
@@ -145,10 +146,11 @@ class WrittenFilesReadBackTest {
             gaussian[i] = r.nextInt(5) == 0 ? 0.0 : anyDouble(r, true);
             lorentz[i] = r.nextInt(3) == 0 ? 0.0 : anyDouble(r, true);
             lineCounts[i] = r.nextInt(5) == 0 ? 0.0 : anyDouble(r, true);
+            inPixels[i] = r.nextInt(5) == 0 ? 0.0 : anyDouble(r, true);
             label[i] = anyText(r, 1, 40);
         }
         return SyntheticSpectrum.of(PixelGrid.of(edges), expected, counts,
-                Scene.Lines.of(position, photons, gaussian, lorentz, label), lineCounts);
+                Scene.Lines.of(position, photons, gaussian, lorentz, label), lineCounts, inPixels);
     }
 
     /** A random scene description: text, doubles, longs and booleans under simple keys. */
@@ -272,12 +274,14 @@ class WrittenFilesReadBackTest {
         int n = lines.size();
         assertEquals(n, back.size());
         double[] lineCounts = new double[n];
+        double[] inPixels = new double[n];
         double[] nm = new double[n];
         double[] doppler = new double[n];
         double[] lorentz = new double[n];
         List<String> labels = new ArrayList<>();
         for (int i = 0; i < n; i++) {
             lineCounts[i] = spectrum.lineCounts(i);
+            inPixels[i] = spectrum.lineCountsInPixels(i);
             nm[i] = lines.position(i);
             doppler[i] = lines.gaussianFwhm(i);
             lorentz[i] = lines.lorentzFwhm(i);
@@ -285,6 +289,7 @@ class WrittenFilesReadBackTest {
         }
         assertArrayEquals(nm, back.wavelengths());
         assertArrayEquals(lineCounts, back.counts());
+        assertArrayEquals(inPixels, back.countsInPixels());
         assertArrayEquals(doppler, back.dopplerFwhm());
         assertArrayEquals(lorentz, back.lorentzFwhm());
         assertEquals(labels, back.labels());

@@ -264,8 +264,9 @@ public final class Schemas {
      * One line of a synthetic spectrum's truth (the engine's {@code Scene.Lines}):
      * {@code label}, {@code position_nm} (centre in the grid's medium, Doppler-shifted),
      * {@code photons} (photon rate before scaling), {@code gaussian_fwhm_nm} (Doppler),
-     * {@code lorentz_fwhm_nm} (collisional, natural and Stark) and {@code counts} (the line's
-     * expected counts on the detector).
+     * {@code lorentz_fwhm_nm} (collisional, natural and Stark), {@code counts} (the line's
+     * expected counts over its whole profile) and {@code counts_in_pixels} (the part of them the
+     * pixels hold; less for a line near or beyond an end of the grid).
      */
     public static final StructType TRUE_LINE = struct(
             required("label", DataTypes.StringType),
@@ -273,7 +274,8 @@ public final class Schemas {
             required("photons", DataTypes.DoubleType),
             required("gaussian_fwhm_nm", DataTypes.DoubleType),
             required("lorentz_fwhm_nm", DataTypes.DoubleType),
-            required("counts", DataTypes.DoubleType));
+            required("counts", DataTypes.DoubleType),
+            required("counts_in_pixels", DataTypes.DoubleType));
 
     /**
      * Synthesis output, one row per scene: {@code id}; {@code counts} (with noise, one per pixel

@@ -235,6 +235,7 @@ public final class SurveySynthesis {
                 lineOut.write(3, lines.gaussianFwhm(i));
                 lineOut.write(4, lines.lorentzFwhm(i));
                 lineOut.write(5, spectrum.lineCounts(i));
+                lineOut.write(6, spectrum.lineCountsInPixels(i));
                 linesOut.setOffsetAndSizeFromPreviousCursor(i, at);
             }
             out.setOffsetAndSizeFromPreviousCursor(3, start);

@@ -132,6 +132,7 @@ class SurveySynthesisTest {
                 assertEquals(s.lines().gaussianFwhm(i), line.getDouble(3));
                 assertEquals(s.lines().lorentzFwhm(i), line.getDouble(4));
                 assertEquals(s.lineCounts(i), line.getDouble(5));
+                assertEquals(s.lineCountsInPixels(i), line.getDouble(6));
             }
         }
         // The seed is the row's: two scenes alike but for the seed differ in their noise only.

@@ -21,6 +21,7 @@ import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.plasma.IonisationBalance;
 import org.ritzwerk.engine.profile.BalmerStark;
 import org.ritzwerk.engine.profile.Broadening;
+import org.ritzwerk.engine.profile.Profiles;
 import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.ritz.RitzLines;
 import org.ritzwerk.engine.ritz.RitzTransitions;
@@ -143,7 +144,8 @@ public final class Scene {
     public SyntheticSpectrum render(int threads, DoubleConsumer progress) {
         int pixels = grid.pixels();
         double[] lineFlux = new double[pixels];
-        if (usesFastRenderer()) {
+        boolean fast = usesFastRenderer();
+        if (fast) {
             new FastLineRenderer(grid, instrument).render(lines.position, lines.photons, lines.gaussian, lines.lorentz,
                     lineFlux, threads);
             if (progress != null) {
@@ -194,7 +196,36 @@ public final class Scene {
         for (int i = 0; i < lineCounts.length; i++) {
             lineCounts[i] = lines.photons[i] * scale;
         }
-        return new SyntheticSpectrum(grid, expected, counts, lines, lineCounts);
+        return new SyntheticSpectrum(grid, expected, counts, lines, lineCounts, lineCountsInPixels(scale, fast));
+    }
+
+    /**
+     * Each line's expected counts in the pixels: its photons times the scale times the share of
+     * its profile (Gaussian width with the instrument's) that falls between the grid's ends, and
+     * for the windowed renderer also within its window, so that a line near or beyond an end of
+     * the grid gets the counts that reach the pixels, and one far beyond gets next to none.
+     */
+    private double[] lineCountsInPixels(double scale, boolean fast) {
+        double lo = grid.lowest();
+        double hi = grid.highest();
+        double[] out = new double[lines.size()];
+        for (int i = 0; i < out.length; i++) {
+            if (lines.photons[i] == 0) {
+                continue;
+            }
+            double c = lines.position[i];
+            double g = Math.hypot(lines.gaussian[i], instrument.fwhmAt(c));
+            double l = lines.lorentz[i];
+            double a = lo;
+            double b = hi;
+            if (!fast) {
+                double reach = window * Profiles.voigtFwhm(g, l);
+                a = Math.max(a, c - reach);
+                b = Math.min(b, c + reach);
+            }
+            out[i] = lines.photons[i] * scale * LineRenderer.fractionBetween(a, b, c, g, l);
+        }
+        return out;
     }
 
     /**

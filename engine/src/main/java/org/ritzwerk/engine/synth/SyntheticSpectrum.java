@@ -3,7 +3,8 @@ package org.ritzwerk.engine.synth;
 /**
  * A rendered {@link Scene}: the pixel grid, the expected counts per pixel before noise, the
  * counts with noise (equal to the expected counts for a noise-free scene), and the lines with
- * the counts each put into the spectrum. Arrays are copied out; the value is immutable.
+ * the counts each carries: over its whole profile ({@link #lineCounts}) and the part of them the
+ * pixels hold ({@link #lineCountsInPixels}). Arrays are copied out; the value is immutable.
  */
 public final class SyntheticSpectrum {
 
@@ -12,13 +13,16 @@ public final class SyntheticSpectrum {
     private final double[] counts;
     private final Scene.Lines lines;
     private final double[] lineCounts;
+    private final double[] inPixels;
 
-    SyntheticSpectrum(PixelGrid grid, double[] expected, double[] counts, Scene.Lines lines, double[] lineCounts) {
+    SyntheticSpectrum(PixelGrid grid, double[] expected, double[] counts, Scene.Lines lines, double[] lineCounts,
+            double[] inPixels) {
         this.grid = grid;
         this.expected = expected;
         this.counts = counts;
         this.lines = lines;
         this.lineCounts = lineCounts;
+        this.inPixels = inPixels;
     }
 
     /**
@@ -28,21 +32,23 @@ public final class SyntheticSpectrum {
      * @param expectedCounts expected counts per pixel, one per pixel
      * @param counts         counts per pixel with noise, one per pixel
      * @param lines          the lines that went in
-     * @param lineCounts     each line's expected counts summed over the pixels, one per line
+     * @param lineCounts     each line's expected counts over its whole profile, one per line
+     * @param inPixels       the part of them the pixels hold, one per line
      * @return the spectrum
      * @throws IllegalArgumentException when an array's length does not match the grid or the lines
      */
     public static SyntheticSpectrum of(PixelGrid grid, double[] expectedCounts, double[] counts, Scene.Lines lines,
-            double[] lineCounts) {
+            double[] lineCounts, double[] inPixels) {
         if (expectedCounts.length != grid.pixels() || counts.length != grid.pixels()) {
             throw new IllegalArgumentException("a grid of " + grid.pixels() + " pixels needs as many expected counts ("
                     + expectedCounts.length + " given) and counts (" + counts.length + " given)");
         }
-        if (lineCounts.length != lines.size()) {
-            throw new IllegalArgumentException(lines.size() + " lines need as many line counts, got "
-                    + lineCounts.length);
+        if (lineCounts.length != lines.size() || inPixels.length != lines.size()) {
+            throw new IllegalArgumentException(lines.size() + " lines need as many line counts and counts in the"
+                    + " pixels, got " + lineCounts.length + " and " + inPixels.length);
         }
-        return new SyntheticSpectrum(grid, expectedCounts.clone(), counts.clone(), lines, lineCounts.clone());
+        return new SyntheticSpectrum(grid, expectedCounts.clone(), counts.clone(), lines, lineCounts.clone(),
+                inPixels.clone());
     }
 
     /** @return the pixels */
@@ -67,10 +73,22 @@ public final class SyntheticSpectrum {
 
     /**
      * @param i line index
-     * @return the line's expected counts summed over all pixels, before noise (less where the
-     *         line lies near or beyond an end of the grid)
+     * @return the line's expected counts over its whole profile, before noise: what a fit of the
+     *         line's profile recovers, also where part of the line lies beyond the grid
      */
     public double lineCounts(int i) {
         return lineCounts[i];
+    }
+
+    /**
+     * @param i line index
+     * @return the part of {@link #lineCounts} the pixels hold: the share of the line's profile
+     *         (with the instrument's width) between the grid's ends, and for the windowed renderer
+     *         within its window; less where the line lies near or beyond an end of the grid, next
+     *         to none for a line far beyond it. Summed over the lines, the expected counts' sum
+     *         (to the fast renderer's bound, where it is used)
+     */
+    public double lineCountsInPixels(int i) {
+        return inPixels[i];
     }
 }

@@ -125,6 +125,44 @@ class SceneTest {
     }
 
     /**
+     * The truth's counts in the pixels are what reaches them. Three Lorentzian lines (collisional FWHM
+     * 0.2 nm, a cold heavy emitter so the Doppler width is negligible, no instrument): one inside,
+     * one 1 nm beyond the long end, one 50 nm beyond. The share of a Lorentzian of half width
+     * gamma between lo and hi is (atan((hi - c) / gamma) - atan((lo - c) / gamma)) / pi (common
+     * practice), and the line counts add up to the pixels' sum, with both renderers (the exact
+     * one within its window, which a wider window here keeps out of the way). Each line's whole
+     * counts stay those of its full profile (equal photon rates here, so equal counts).
+     */
+    @Test
+    void theTruthCountsWhatReachesThePixels() {
+        double lo = 500;
+        double hi = 520;
+        double[] at = {510, 521, 570};
+        for (Renderer renderer : new Renderer[] {Renderer.EXACT, Renderer.FAST}) {
+            Scene scene = Scene.builder(PixelGrid.linear(lo, hi, 4000)).temperature(1).collisionalFwhm(0.2)
+                    .window(2000).renderer(renderer)
+                    .lineList("test", at, new double[] {1, 1, 1}, 1e-20).build();
+            SyntheticSpectrum spectrum = scene.render(1);
+            double scale = spectrum.lineCountsInPixels(0)
+                    / ((Math.atan((hi - 510) / 0.1) - Math.atan((lo - 510) / 0.1)) / Math.PI);
+            double sum = 0;
+            for (int i = 0; i < 3; i++) {
+                double c = scene.lines().position(i);
+                double share = (Math.atan((hi - c) / 0.1) - Math.atan((lo - c) / 0.1)) / Math.PI;
+                assertEquals(share * scale, spectrum.lineCountsInPixels(i), 1e-6 * share * scale,
+                        renderer + " line " + i);
+                assertEquals(scale, spectrum.lineCounts(i), 1e-6 * scale, "the whole line");
+                sum += spectrum.lineCountsInPixels(i);
+            }
+            assertTrue(spectrum.lineCountsInPixels(2) < 1e-3 * spectrum.lineCountsInPixels(0), "the line 50 nm away");
+            // The fast renderer's periodic grid folds a little of the far wings back in (its
+            // stated bound, 1e-6 of a line's peak per pixel): 6e-5 of the sum here.
+            assertEquals(sum, Arrays.stream(spectrum.expectedCounts()).sum(),
+                    (renderer == Renderer.FAST ? 1e-4 : 1e-6) * sum, renderer.toString());
+        }
+    }
+
+    /**
      * The fast renderer's round-off left dark pixels a hair below zero (-1e-12), which the noise
      * refused: a scene drawn with it and given noise failed. No pixel is negative now, and the
      * lit pixels are as before within the renderer's bound.
