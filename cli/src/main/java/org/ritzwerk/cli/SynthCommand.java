@@ -145,7 +145,8 @@ final class SynthCommand implements Callable<Integer> {
     boolean naturalWidths;
 
     @Option(names = "--continuum", paramLabel = "KIND", defaultValue = "none",
-            description = "none, flat, or blackbody (at --continuum-temperature). Default: ${DEFAULT-VALUE}.")
+            description = "none, flat, or blackbody (at --continuum-temperature, in photons per wavelength like "
+                    + "the lines). Default: ${DEFAULT-VALUE}.")
     String continuumKind;
 
     @Option(names = "--continuum-file", paramLabel = "FILE",
@@ -550,7 +551,7 @@ final class SynthCommand implements Callable<Integer> {
                 case "blackbody":
                     double t = continuumTemperature == null ? temperature : continuumTemperature;
                     Medium axisMedium = AxisMedium.of(medium);
-                    density = nm -> Continuum.planckPerWavelength(axisMedium.toVacuum(nm * 1e-9), t);
+                    density = nm -> Continuum.planckPhotonsPerWavelength(axisMedium.toVacuum(nm * 1e-9), t);
                     break;
                 default:
                     throw new OptionException("--continuum must be none, flat or blackbody, got '"

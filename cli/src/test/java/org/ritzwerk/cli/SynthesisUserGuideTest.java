@@ -45,7 +45,7 @@ class SynthesisUserGuideTest {
                 .hydrogenLike(Species.parse("H I"), HydrogenLikeModel.of(data.nucleus(Species.parse("H I")), Tier.QED), 1)
                 .alkali(data.alkaliAtom(Species.parse("Rb-87 I")), 1e-3, data.nucleus(Species.parse("Rb-87 I")))
                 .lineList(data.lampLines(Species.parse("Ne I")), data::nucleus)
-                .continuum(nm -> Continuum.planckPerWavelength(air.toVacuum(nm * 1e-9), 6000), 50)
+                .continuum(nm -> Continuum.planckPhotonsPerWavelength(air.toVacuum(nm * 1e-9), 6000), 50)
                 .noise(3.0, 7L)
                 .build();
         SyntheticSpectrum spectrum = scene.render(2);

@@ -153,7 +153,7 @@ class UserGuideTest {
         }
 
         double scale = 1e-9;                                            // invented: counts per W m^-2 sr^-1
-        Continuum.render(grid, nm -> 1e-9 * Continuum.planckPerWavelength(nm * 1e-9, 4500) * scale, pixels);
+        Continuum.render(grid, nm -> 1e-9 * Continuum.planckPhotonsPerWavelength(nm * 1e-9, 4500) * scale, pixels);
         double[] clean = pixels.clone();
         Noise.apply(pixels, 4.0, 2026L, pixels);                        // Poisson + 4-count read noise
         double[] again = clean.clone();
@@ -199,7 +199,7 @@ class UserGuideTest {
                 .hydrogenLike(Species.parse("He II"), heliumIon, 0.1)          // relative numbers of atoms
                 .temperature(25_000).electronDensity(1e22)                     // Saha balance, Stark widths
                 .medium(Medium.air()).instrument(Instrument.ofResolvingPower(8000))
-                .continuum(nm -> Continuum.planckPerWavelength(nm * 1e-9, 25_000), 100)
+                .continuum(nm -> Continuum.planckPhotonsPerWavelength(nm * 1e-9, 25_000), 100)
                 .noise(3.0, 42L)
                 .renderer(Renderer.AUTO)                                       // or EXACT, FAST
                 .build();

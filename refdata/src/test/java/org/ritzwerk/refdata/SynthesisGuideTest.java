@@ -45,7 +45,7 @@ class SynthesisGuideTest {
                 .alkali(rubidium, 1e-3, data.nucleus(Species.parse("Rb-87 I")))  // Boltzmann over its levels
                 .lineList(neon, data::nucleus)                     // relative intensities, scaled to the ions
                 .temperature(6000).medium(Medium.air()).instrument(Instrument.ofResolvingPower(10_000))
-                .continuum(nm -> Continuum.planckPerWavelength(nm * 1e-9, 6000), 50)
+                .continuum(nm -> Continuum.planckPhotonsPerWavelength(nm * 1e-9, 6000), 50)
                 .noise(3.0, 7L)
                 .build();
         SyntheticSpectrum spectrum = scene.render(2);

@@ -31,6 +31,23 @@ public final class Continuum {
     }
 
     /**
+     * Planck's law as a photon rate per unit wavelength, N = B lambda / (h c) =
+     * 2 c / lambda^4 / (exp(h c / (lambda k T)) - 1): the shape a photon-counting detector sees,
+     * and the one to give a scene whose lines are photon counts (the energy form
+     * {@link #planckPerWavelength} is tilted by a factor lambda against it).
+     *
+     * @param wavelength  vacuum wavelength in m, positive
+     * @param temperature temperature in K, positive
+     * @return photon radiance in photons s^-1 m^-3 sr^-1
+     */
+    public static double planckPhotonsPerWavelength(double wavelength, double temperature) {
+        positive("wavelength", wavelength, "m");
+        positive("temperature", temperature, "K");
+        double x = H * C / (wavelength * K * temperature);
+        return 2 * C / Math.pow(wavelength, 4) / Math.expm1(x);
+    }
+
+    /**
      * Planck's law per unit frequency, B = 2 h nu^3 / c^2 / (exp(h nu / (k T)) - 1).
      *
      * @param frequency   frequency in Hz, positive

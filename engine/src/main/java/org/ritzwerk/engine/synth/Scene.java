@@ -724,7 +724,8 @@ public final class Scene {
 
         /**
          * @param density             continuum per nm as a function of the axis wavelength in nm,
-         *                            e.g. {@code nm -> Continuum.planckPerWavelength(...)}
+         *                            in photons like the lines, e.g.
+         *                            {@code nm -> Continuum.planckPhotonsPerWavelength(...)}
          * @param brightestPixelCounts expected counts of its brightest pixel, positive
          * @return this builder
          */

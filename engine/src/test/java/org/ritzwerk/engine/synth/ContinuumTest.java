@@ -52,6 +52,21 @@ class ContinuumTest {
                 Continuum.planckPerFrequency(nu, 4000), 1e-12 * Continuum.planckPerFrequency(nu, 4000));
     }
 
+    /**
+     * The photon form: 3.04745043687602e31 photons s^-1 m^-3 sr^-1 at 500 nm and 5000 K (mpmath
+     * 1.3.0 at 30 digits with scipy 1.17.1's h, c, k, exact in the SI), and B lambda / (h c) at any
+     * wavelength (common practice).
+     */
+    @Test
+    void thePhotonFormIsTheEnergyFormOverThePhotonEnergy() {
+        assertEquals(3.04745043687602e31, Continuum.planckPhotonsPerWavelength(500e-9, 5000), 1e-12 * 3.05e31);
+        for (double lambda : new double[] {200e-9, 656e-9, 2e-6}) {
+            double photons = Continuum.planckPerWavelength(lambda, 8000) * lambda
+                    / (PhysicalConstants.H * PhysicalConstants.C);
+            assertEquals(photons, Continuum.planckPhotonsPerWavelength(lambda, 8000), 1e-12 * photons);
+        }
+    }
+
     @Test
     void refusesNegativeContinuaAndTemperatures() {
         PixelGrid grid = PixelGrid.linear(0, 1, 4);
