@@ -377,6 +377,36 @@ class SynthCommandTest {
                 turning.err());
     }
 
+    /**
+     * A lamp list beside a plasma is scaled to the strongest ion line as drawn: with a density
+     * the Saha balance leaves little H I at 20,000 K, and the neon list must follow it (it was
+     * scaled to un-ionised hydrogen, 553 times brighter than the H-alpha drawn).
+     */
+    @Test
+    void aLineListBesideIonsMatchesTheStrongestIonLineAsDrawn(@TempDir Path dir) throws IOException {
+        Path truth = dir.resolve("t.csv");
+        CliTest.Run run = CliTest.run("synth", "--species", "H I", "--lines", "lamp-ne-i", "--from", "580 nm air",
+                "--to", "700 nm air", "--medium", "air", "--temperature", "20000", "--electron-density", "1e21",
+                "--no-noise", "--truth", truth.toString(), "--out", dir.resolve("s.csv").toString());
+        assertEquals(0, run.code(), run.err());
+        double hydrogen = 0;
+        double neon = 0;
+        for (String row : Files.readAllLines(truth, StandardCharsets.UTF_8)) {
+            if (row.startsWith("#") || row.startsWith("wavelength_nm")) {
+                continue;
+            }
+            String[] c = row.split(",");
+            double counts = Double.parseDouble(c[1]);
+            if (c[c.length - 1].startsWith("H I")) {
+                hydrogen = Math.max(hydrogen, counts);
+            } else if (c[c.length - 1].startsWith("Ne I")) {
+                neon = Math.max(neon, counts);
+            }
+        }
+        assertTrue(hydrogen > 0 && neon > 0, hydrogen + " " + neon);
+        assertEquals(hydrogen, neon, 1e-9 * hydrogen);
+    }
+
     /** Abundances a double cannot carry through the photon rates are bad input, not an internal error. */
     @Test
     void anAbundanceBeyondWhatTheRatesCarryIsRefused() {

@@ -523,8 +523,9 @@ public final class Scene {
         /**
          * A line list with relative intensities (a lamp set, say): one emitter per species in it,
          * lines without an intensity left out. When the scene has one-electron ions the intensities
-         * are scaled so the list's strongest line has the photon rate of the strongest ion line (at
-         * abundance 1, no ionisation balance), so both show; otherwise they are used as given.
+         * are scaled so the list's strongest line has the photon rate of the strongest ion line as
+         * drawn (with the ions' abundances and, given a density, their Saha balance), so both
+         * show; otherwise they are used as given.
          * Labelled {@code Ne I 640.2248 nm air}.
          *
          * @param list   the list, in any wavelength unit and medium
@@ -944,14 +945,20 @@ public final class Scene {
             return IonisationBalance.helium(ion, temperature, electronDensity, nMax)[0];
         }
 
-        /** The strongest one-electron line's photon rate at abundance 1, or 0 without ions. */
+        /**
+         * The strongest one-electron line's photon rate as the scene draws it (the ions'
+         * abundances and, with a density, their Saha balance), or 0 without ions.
+         */
         private double strongestIonLine() {
             if (ions.isEmpty()) {
                 return 0;
             }
             Builder probe = Scene.builder(grid).medium(medium).nMax(nMax).temperature(temperature);
+            if (!Double.isNaN(electronDensity)) {
+                probe.electronDensity(electronDensity);
+            }
             for (HydrogenLikeEmitter ion : ions) {
-                probe.hydrogenLike(ion.species(), ion.model(), 1);
+                probe.hydrogenLike(ion.species(), ion.model(), ion.abundance());
             }
             Lines ionLines = probe.build().lines();
             double strongest = 0;
