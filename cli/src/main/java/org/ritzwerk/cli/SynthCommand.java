@@ -289,6 +289,11 @@ final class SynthCommand implements Callable<Integer> {
             throw new OptionException("--natural-widths are computed up to n = "
                     + Scene.MAX_N_WITH_NATURAL_WIDTHS + "; lower --n-max (" + nMax + ") or leave them out");
         }
+        WorkEstimate.hydrogenLines("synth", "the lines of the one-electron ions up to n = " + nMax,
+                builder.ionLineWorkUnits()).ifPresent(note -> {
+                    spec.commandLine().getErr().println(note);
+                    spec.commandLine().getErr().flush();
+                });
         Scene scene = builder.build();
         SyntheticSpectrum spectrum;
         try {

@@ -407,6 +407,36 @@ class SynthCommandTest {
         assertEquals(hydrogen, neon, 1e-9 * hydrogen);
     }
 
+    /**
+     * A scene whose one-electron lines would take days (the exact radial integrals of every pair
+     * of shells up to n = 2000) is refused with the estimate, as lines and identify refuse them;
+     * one of about ten seconds starts with a note.
+     */
+    @Test
+    void aSceneOfDaysIsRefusedWithItsEstimate() {
+        CliTest.Run run = CliTest.run("synth", "--species", "H", "--from", "100000 nm", "--to", "1e7 nm",
+                "--temperature", "9e8", "--n-max", "2000", "--pixels", "100");
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().contains("the lines of the one-electron ions up to n = 2000 would take about"),
+                run.err());
+    }
+
+    /**
+     * A dense plasma's notes: Stark widths only for H-alpha and H-beta, and the Balmer lines above
+     * the Inglis-Teller limit (n = 8 at 3e22 m^-3: log10 3e16 = 16.48 = 23.26 - 7.5 log10 n, the
+     * relation from memory) drawn as separate lines.
+     */
+    @Test
+    void aDensePlasmaSaysWhatItDrawsWithoutStarkWidths() {
+        CliTest.Run run = CliTest.run("synth", "--species", "H I,He II", "--from", "380 nm", "--to", "700 nm",
+                "--temperature", "20000", "--electron-density", "3e22", "--no-noise");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.err().contains("note: Stark widths are drawn for H-alpha and H-beta of hydrogen and deuterium"
+                + " only"), run.err());
+        assertTrue(run.err().contains("note: at this density the Balmer lines above n = 8 merge into a continuum"
+                + " (Inglis-Teller); they are drawn as separate lines up to nMax = 30"), run.err());
+    }
+
     /** Abundances a double cannot carry through the photon rates are bad input, not an internal error. */
     @Test
     void anAbundanceBeyondWhatTheRatesCarryIsRefused() {

@@ -769,19 +769,68 @@ public final class Scene {
             return new Scene(this);
         }
 
+        /** @return the relativistic Doppler factor of the scene's velocity */
+        private double doppler() {
+            return Math.sqrt((1 + velocity / PhysicalConstants.C) / (1 - velocity / PhysicalConstants.C));
+        }
+
+        /** @return whether Balmer-alpha and -beta get Stark widths (a density within the fits' range) */
+        private boolean stark() {
+            return !Double.isNaN(electronDensity) && electronDensity >= BalmerStark.MIN_DENSITY;
+        }
+
+        /**
+         * @return how far beyond the grid a line can still put light into it, nm: the window times a
+         *         generous width (instrument, collisional, Doppler of hydrogen at 1e5 K, Stark)
+         */
+        private double reach() {
+            double hi = grid.highest();
+            double widest = instrument.fwhmAt(hi) + collisional + 2.5e-4 * hi
+                    + (stark() ? BalmerStark.fwhmNanometres(BalmerStark.Line.BETA, electronDensity) : 0);
+            return window * widest;
+        }
+
+        /**
+         * The work {@link #build} spends on the one-electron ions' lines, in the units of
+         * {@link HydrogenLikeLines#workUnits} summed over the ions, over the same window: for an
+         * estimate of the time before a long build (the exact radial integrals grow about as
+         * n^3.6 at high nMax).
+         *
+         * @return the work units; 0 without one-electron ions
+         */
+        public double ionLineWorkUnits() {
+            double reach = reach();
+            double doppler = doppler();
+            double loNm = Math.max(grid.lowest() - reach, grid.lowest() / 2);
+            double hiNm = grid.highest() + reach;
+            double units = 0;
+            for (HydrogenLikeEmitter ion : ions) {
+                units += HydrogenLikeLines.of(ion.model()).workUnits(nMax, PhysicalConstants.C * doppler
+                        / (hiNm * 1.001e-9), PhysicalConstants.C * doppler / (loNm * 1e-9), false);
+            }
+            return units;
+        }
+
         private Lines lines(List<String> notes) {
-            double doppler = Math.sqrt((1 + velocity / PhysicalConstants.C) / (1 - velocity / PhysicalConstants.C));
+            double doppler = doppler();
             double lo = grid.lowest();
             double hi = grid.highest();
-            boolean stark = !Double.isNaN(electronDensity) && electronDensity >= BalmerStark.MIN_DENSITY;
-            // Lines this far beyond the grid can still put light into it: the window times a
-            // generous width (instrument, collisional, Doppler of hydrogen at 1e5 K, Stark).
-            double widest = instrument.fwhmAt(hi) + collisional + 2.5e-4 * hi
-                    + (stark ? BalmerStark.fwhmNanometres(BalmerStark.Line.BETA, electronDensity) : 0);
-            double reach = window * widest;
+            boolean stark = stark();
+            double reach = reach();
             if (!Double.isNaN(electronDensity) && !stark) {
                 notes.add("electron density " + electronDensity + " m^-3 is below the Balmer Stark fit's range ("
                         + BalmerStark.MIN_DENSITY + " m^-3); Stark widths are left out (under 0.005 nm there)");
+            }
+            if (stark && ions.stream().anyMatch(ion -> ion.model().nucleus().z() <= 2)) {
+                notes.add("Stark widths are drawn for H-alpha and H-beta of hydrogen and deuterium only (the fits"
+                        + " cover those); H-gamma and higher and the He II lines are drawn without");
+                // Inglis and Teller (1939): log10 Ne[cm^-3] = 23.26 - 7.5 log10 n_max (from memory).
+                double merged = Math.pow(10, (23.26 - Math.log10(electronDensity * 1e-6)) / 7.5);
+                if (nMax > merged && ions.stream().anyMatch(ion -> ion.model().nucleus().z() == 1)) {
+                    notes.add(String.format(java.util.Locale.ROOT, "at this density the Balmer lines above n = %.0f"
+                            + " merge into a continuum (Inglis-Teller); they are drawn as separate lines up to"
+                            + " nMax = %d", Math.floor(merged), nMax));
+                }
             }
             Collected out = new Collected(lo, hi);
             for (HydrogenLikeEmitter ion : ions) {
