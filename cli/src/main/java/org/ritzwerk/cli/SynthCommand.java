@@ -317,6 +317,10 @@ final class SynthCommand implements Callable<Integer> {
         for (String note : scene.notes()) {
             spec.commandLine().getErr().println("note: " + note);
         }
+        if (!noNoise && !new OptionRules(spec).given("--seed")) {
+            spec.commandLine().getErr().println("note: the noise is drawn from the default --seed " + seed
+                    + "; spectra made without --seed share their noise, so give each its own seed");
+        }
         int[] dark = darkLines(scene.lines(), grid);
         if (dark[1] > 0) {
             spec.commandLine().getErr().println("note: " + dark[1] + " of the " + dark[0] + " lines inside the range carry"

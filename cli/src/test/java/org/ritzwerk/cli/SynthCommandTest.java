@@ -437,6 +437,20 @@ class SynthCommandTest {
                 + " (Inglis-Teller); they are drawn as separate lines up to nMax = 30"), run.err());
     }
 
+    /** Noise from the default seed is noted: spectra made in bulk without --seed would share it. */
+    @Test
+    void theDefaultSeedIsNoted() {
+        CliTest.Run plain = CliTest.run("synth", "--species", "H", "--from", "400 nm", "--to", "700 nm",
+                "--temperature", "9000", "--pixels", "200");
+        assertEquals(0, plain.code(), plain.err());
+        assertTrue(plain.err().contains("note: the noise is drawn from the default --seed 1; spectra made without"
+                + " --seed share their noise"), plain.err());
+        CliTest.Run seeded = CliTest.run("synth", "--species", "H", "--from", "400 nm", "--to", "700 nm",
+                "--temperature", "9000", "--pixels", "200", "--seed", "1");
+        assertEquals(0, seeded.code(), seeded.err());
+        assertTrue(!seeded.err().contains("--seed"), seeded.err());
+    }
+
     /** Abundances a double cannot carry through the photon rates are bad input, not an internal error. */
     @Test
     void anAbundanceBeyondWhatTheRatesCarryIsRefused() {
