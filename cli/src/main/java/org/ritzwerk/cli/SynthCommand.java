@@ -70,9 +70,10 @@ final class SynthCommand implements Callable<Integer> {
     String to;
 
     @Option(names = "--dispersion", paramLabel = "C0,C1,...",
-            description = "Instead of --from/--to: pixel p (0-based, centre) sees c0 + c1 p + c2 p^2 + ... nm in "
-                    + "the axis medium, for --pixels pixels, as a spectrometer's dispersion does; rising or falling "
-                    + "with p, the rows in pixel order.")
+            description = "Instead of --from/--to: pixel p (0-based) sees c0 + c1 p + c2 p^2 + ... nm in the axis "
+                    + "medium at its centre (its edges where the polynomial gives p -+ 1/2; the file's wavelength is "
+                    + "the mean of the edges), for --pixels pixels, as a spectrometer's dispersion does; rising or "
+                    + "falling with p, the rows in pixel order.")
     String dispersion;
 
     @Option(names = "--lines", paramLabel = "SET",
