@@ -142,6 +142,11 @@ final class SynthCommand implements Callable<Integer> {
             description = "Relative number of atoms of an element, e.g. He=0.1 (repeatable; default 1 each).")
     java.util.List<String> abundances = new java.util.ArrayList<>();
 
+    @Option(names = "--components", description = "Draw the one-electron ions' fine-structure components (n l j "
+            + "-> n' l' j', each at its own position) instead of one line per n -> n' multiplet; they show at a "
+            + "resolving power of a few 1e5 or in a cold scene. Hyperfine structure is not drawn.")
+    boolean components;
+
     @Option(names = "--natural-widths", description = "Add the lines' natural (radiative) widths; needs --n-max <= 60.")
     boolean naturalWidths;
 
@@ -214,7 +219,7 @@ final class SynthCommand implements Callable<Integer> {
         Scene.Builder builder = Scene.builder(grid)
                 .medium(axisMedium)
                 .instrument(Instrument.ofResolvingPower(resolvingPower))
-                .naturalWidths(naturalWidths);
+                .naturalWidths(naturalWidths).components(components);
         builder.renderer(renderer());
         option("--temperature", () -> builder.temperature(temperature));
         option("--n-max", () -> builder.nMax(nMax));
@@ -235,6 +240,7 @@ final class SynthCommand implements Callable<Integer> {
                 + " lists bring their own levels)");
         rules.refuseUnless("--natural-widths", !resolved.isEmpty(), noIon + "natural widths are computed for their"
                 + " lines)");
+        rules.refuseUnless("--components", !resolved.isEmpty(), noIon + "it draws their fine structure)");
         rules.refuseUnless("--n-max", !ions.species.isEmpty(), "without --species (--lines lists bring their own"
                 + " lines)");
         if (resolved.isEmpty() && atoms.alkalis().isEmpty() && levelSets.levels().isEmpty() && lineSets.isEmpty()) {
@@ -605,6 +611,7 @@ final class SynthCommand implements Callable<Integer> {
         d.put("velocity-km-s", velocity);
         d.put("collisional-fwhm-nm", collisionalWidth);
         d.put("natural-widths", naturalWidths);
+        d.put("fine-structure", components ? "components" : "multiplets");
         d.put("continuum", continuumFile != null ? "file " + continuumFile.getFileName() + ", brightest pixel "
                 + continuumCounts : continuumKind.equals("none") ? "none" : continuumKind + ", brightest pixel "
                 + continuumCounts);

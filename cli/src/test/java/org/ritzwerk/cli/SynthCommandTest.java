@@ -437,6 +437,27 @@ class SynthCommandTest {
                 + " (Inglis-Teller); they are drawn as separate lines up to nMax = 30"), run.err());
     }
 
+    /**
+     * --components draws H-alpha as its seven fine-structure components (the lines command lists
+     * the same seven between 656.45 and 656.48 nm vacuum); without one-electron ions it is refused.
+     */
+    @Test
+    void componentsDrawTheFineStructure(@TempDir Path dir) throws IOException {
+        Path truth = dir.resolve("t.csv");
+        CliTest.Run run = CliTest.run("synth", "--species", "H I", "--from", "656.3 nm", "--to", "656.6 nm",
+                "--temperature", "1000", "--resolving-power", "1e7", "--no-noise", "--pixels", "300", "--components",
+                "--truth", truth.toString(), "--out", dir.resolve("s.csv").toString());
+        assertEquals(0, run.code(), run.err());
+        List<String> rows = Files.readAllLines(truth, StandardCharsets.UTF_8).stream()
+                .filter(r -> r.startsWith("656.")).toList();
+        assertEquals(7, rows.size(), rows.toString());
+        assertTrue(rows.stream().anyMatch(r -> r.endsWith(",H I 3d 2D5/2 - 2p 2P3/2")), rows.toString());
+        assertTrue(Files.readString(dir.resolve("s.csv")).contains("# fine-structure: components\n"));
+        assertTrue(CliTest.run("synth", "--lines", "lamp-ne-i", "--from", "600 nm", "--to", "700 nm",
+                "--temperature", "400", "--components").err().contains("--components has no effect without a"
+                        + " one-electron ion in --species"));
+    }
+
     /** Noise from the default seed is noted: spectra made in bulk without --seed would share it. */
     @Test
     void theDefaultSeedIsNoted() {

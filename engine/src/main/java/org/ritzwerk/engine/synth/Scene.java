@@ -358,6 +358,7 @@ public final class Scene {
         private double velocity;
         private double collisional;
         private boolean natural;
+        private boolean components;
         private int nMax = 30;
         private Medium medium = Medium.vacuum();
         private Instrument instrument = Instrument.ideal();
@@ -665,6 +666,20 @@ public final class Scene {
         }
 
         /**
+         * @param on draw the one-electron emitters' fine-structure components (n l j -&gt; n' l' j',
+         *           each with its own position, upper weight 2j + 1 and A, populated by Boltzmann's
+         *           law at its level's energy) instead of one line per n -&gt; n' multiplet at the
+         *           multiplet's centroid; resolved at a resolving power of a few 1e5 and up, or in a
+         *           cold scene (hyperfine structure is not drawn either way). Natural and Stark
+         *           widths stay those of the multiplet's shells.
+         * @return this builder
+         */
+        public Builder components(boolean on) {
+            this.components = on;
+            return this;
+        }
+
+        /**
          * @param n highest upper n and the partition functions' cutoff, 2 .. {@link HydrogenLikeLines#MAX_N}
          * @return this builder
          */
@@ -806,7 +821,7 @@ public final class Scene {
             double units = 0;
             for (HydrogenLikeEmitter ion : ions) {
                 units += HydrogenLikeLines.of(ion.model()).workUnits(nMax, PhysicalConstants.C * doppler
-                        / (hiNm * 1.001e-9), PhysicalConstants.C * doppler / (loNm * 1e-9), false);
+                        / (hiNm * 1.001e-9), PhysicalConstants.C * doppler / (loNm * 1e-9), components);
             }
             return units;
         }
@@ -1134,13 +1149,16 @@ public final class Scene {
             // Air wavelengths are shorter than vacuum ones by less than 0.1 %: a safe search range.
             double vacuumLo = loNm * 1e-9 / doppler;
             double vacuumHi = hiNm * 1.001e-9 / doppler;
-            LineTable table = HydrogenLikeLines.of(model).multiplets(nMax, PhysicalConstants.C / vacuumHi,
-                    PhysicalConstants.C / vacuumLo);
+            HydrogenLikeLines source = HydrogenLikeLines.of(model);
+            LineTable table = components
+                    ? source.components(nMax, PhysicalConstants.C / vacuumHi, PhysicalConstants.C / vacuumLo)
+                    : source.multiplets(nMax, PhysicalConstants.C / vacuumHi, PhysicalConstants.C / vacuumLo);
             double mass = model.nucleus().massKg() + PhysicalConstants.ELECTRON_MASS.value();
             double[] shellRate = natural ? new double[nMax + 1] : null;
             for (int i = 0; i < table.size(); i++) {
                 int upperN = table.upperN(i);
-                double upper = model.energy(upperN, 0, 1);
+                double upper = components ? model.energy(upperN, table.upperL(i), table.upperTwoJ(i))
+                        : model.energy(upperN, 0, 1);
                 double photons = number * table.upperWeight(i) * table.einsteinA(i)
                         * Math.exp(-(upper - ground) / kT) / partition;
                 double nu = table.frequency(i);
@@ -1160,7 +1178,8 @@ public final class Scene {
                 if (stark && balmer != null && model.nucleus().z() == 1) {
                     lorentz += BalmerStark.fwhmNanometres(balmer, electronDensity) * axis / (vacuum * 1e9);
                 }
-                out.add(axis, photons, gauss, lorentz, ion.species.notation() + " " + table.lineName(i));
+                out.add(axis, photons, gauss, lorentz, ion.species.notation() + " " + (components
+                        ? table.upperLabel(i) + " - " + table.lowerLabel(i) : table.lineName(i)));
             }
         }
 

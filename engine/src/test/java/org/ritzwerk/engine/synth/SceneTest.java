@@ -180,6 +180,36 @@ class SceneTest {
         }
     }
 
+    /**
+     * Fine-structure components: H-alpha's seven components carry the multiplet's photons between
+     * them (to the Boltzmann factors of their 0.1-0.4 cm^-1 splittings, 5e-5 at 10,000 K), centred
+     * on its position, and the 3d 2D - 2p 2P lines stand as the LS line strengths 9 : 5 : 1
+     * (2D5/2 - 2P3/2 : 2D3/2 - 2P1/2 : 2D3/2 - 2P3/2, common practice; photon rates follow them to
+     * the nu^3 of their 1e-5 relative spread).
+     */
+    @Test
+    void componentsShareTheirMultipletsPhotons() {
+        Scene.Builder builder = Scene.builder(PixelGrid.linear(656.0, 656.9, 900)).hydrogenLike(Species.parse("H I"),
+                H, 1).temperature(10_000).nMax(3);
+        Scene.Lines multiplet = builder.components(false).build().lines();
+        Scene.Lines parts = builder.components(true).build().lines();
+        assertEquals(1, multiplet.size());
+        assertEquals(7, parts.size());
+        double photons = 0;
+        double moment = 0;
+        java.util.Map<String, Double> byLabel = new java.util.HashMap<>();
+        for (int i = 0; i < parts.size(); i++) {
+            photons += parts.photons(i);
+            moment += parts.photons(i) * parts.position(i);
+            byLabel.put(parts.label(i), parts.photons(i));
+        }
+        assertEquals(multiplet.photons(0), photons, 1e-4 * photons);
+        assertEquals(multiplet.position(0), moment / photons, 2e-5);
+        double strong = byLabel.get("H I 3d 2D5/2 - 2p 2P3/2");
+        assertEquals(5.0 / 9, byLabel.get("H I 3d 2D3/2 - 2p 2P1/2") / strong, 1e-4);
+        assertEquals(1.0 / 9, byLabel.get("H I 3d 2D3/2 - 2p 2P3/2") / strong, 1e-4);
+    }
+
     @Test
     void autoKeepsSmallScenesOnTheExactRenderer() {
         Scene scene = Scene.builder(PixelGrid.linear(400, 700, 4000)).hydrogenLike(Species.parse("H I"), H, 1).build();
