@@ -119,7 +119,8 @@ public final class Notation {
     /**
      * The wavelength by which a line is named (common practice in spectroscopy and astronomy):
      * in angstrom, in standard air ({@link Medium#air()}) from 200 nm to 2 um and in vacuum
-     * outside that range, rounded to a whole angstrom from 1000 A on and to 0.1 A below. Some traditional names
+     * outside that range, rounded to a whole angstrom from 1000 A on, to 0.1 A from 100 A, and to
+     * four significant digits below. Some traditional names
      * truncate instead (He II 5411 for 5411.5 A in air); this method always rounds.
      *
      * @param vacuumMetres vacuum wavelength in m, positive and finite
@@ -133,8 +134,13 @@ public final class Notation {
         double metres = vacuumMetres >= AIR_FROM_METRES && vacuumMetres <= AIR_UP_TO_METRES
                 ? Medium.air().fromVacuum(vacuumMetres) : vacuumMetres;
         double angstrom = metres * 1e10;
-        return angstrom >= 1000 ? Long.toString(Math.round(angstrom))
-                : String.format(Locale.ROOT, "%.1f", angstrom);
+        if (angstrom >= 1000) {
+            return Long.toString(Math.round(angstrom));
+        }
+        // Below 100 A four significant digits, so that the X-ray lines of heavy ions keep a name
+        // of their own (0.1240, not 0.1).
+        return angstrom >= 100 ? String.format(Locale.ROOT, "%.1f", angstrom)
+                : new java.math.BigDecimal(angstrom).round(new java.math.MathContext(4)).toPlainString();
     }
 
     /**

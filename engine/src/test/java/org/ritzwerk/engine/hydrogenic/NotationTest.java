@@ -35,6 +35,9 @@ class NotationTest {
         // Below 200 nm the vacuum wavelength names the line; below 1000 A to 0.1 A.
         assertEquals("1640 (3-2)", Notation.line(2, 3, 2, 164.04e-9));
         assertEquals("303.8 (2-1)", Notation.line(2, 2, 1, 30.378e-9));
+        // X-ray lines of heavy ions keep four significant digits (they all read 0.1 before).
+        assertEquals("0.1240 (2-1)", Notation.line(92, 2, 1, 1.23951e-11));
+        assertEquals("33.74 (2-1)", Notation.line(6, 2, 1, 3.37362e-9));
         assertEquals(Optional.empty(), Notation.series(2, 2));
         // Beyond 2 um the vacuum wavelength names the line; beyond 10 um only the shells.
         assertEquals("30917 (7-6)", Notation.line(2, 7, 6, 3.0917e-6));
