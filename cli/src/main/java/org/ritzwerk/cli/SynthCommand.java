@@ -80,8 +80,8 @@ final class SynthCommand implements Callable<Integer> {
             description = "Also draw a line list: a data set id (e.g. lamp-ne-i) or a line-list file, with its "
                     + "relative intensities (lines without one are left out). Repeatable. With --species too, "
                     + "each list is scaled so its strongest line carries as many photons as the strongest ion "
-                    + "line as drawn (abundances, Saha balance). A file beyond 64 MiB or a million lines is streamed from the disk as columns "
-                    + "(about 18 bytes a line).")
+                    + "line as drawn (abundances, Saha balance). A file beyond 64 MiB or a million lines is "
+                    + "streamed from the disk as columns (about 18 bytes a line).")
     List<String> lineSets = new ArrayList<>();
 
     @Option(names = "--medium", paramLabel = "MEDIUM", defaultValue = "vacuum",

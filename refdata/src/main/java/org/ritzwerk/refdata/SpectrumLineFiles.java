@@ -24,8 +24,9 @@ import org.ritzwerk.medium.Medium;
  * {@code wavelength_nm} is the line centre in nm in the header's {@code medium} (the spectrum's
  * axis medium, Doppler-shifted by the scene's velocity); {@code counts} (the whole line),
  * {@code counts_in_pixels} (the part of it the pixels hold; optional when reading, for files
- * written before it) and the two widths (nm) are not negative; {@code line} is the line's label (one line of text, at most 500 characters,
- * quoted as CSV when it holds a comma, a quote or spaces at its ends). Numbers are written as the
+ * written before it) and the two widths (nm) are not negative; {@code line} is the line's label
+ * (one line of text, at most 500 characters, quoted as CSV when it holds a comma, a quote or
+ * spaces at its ends). Numbers are written as the
  * shortest decimal that reads back as the same double, so {@link #read(String, String)} gives back
  * what {@link #writeCsv} was given, bit for bit. The header keys {@code counts} and {@code widths}
  * are explanations for the reader and optional; {@code medium} is required.
@@ -108,7 +109,8 @@ public final class SpectrumLineFiles {
         for (int i = 0; i < lines.size(); i++) {
             row.setLength(0);
             row.append(lines.position(i)).append(',').append(spectrum.lineCounts(i)).append(',')
-                    .append(spectrum.lineCountsInPixels(i)).append(',').append(lines.gaussianFwhm(i)).append(',').append(lines.lorentzFwhm(i)).append(',');
+                    .append(spectrum.lineCountsInPixels(i)).append(',').append(lines.gaussianFwhm(i)).append(',')
+                    .append(lines.lorentzFwhm(i)).append(',');
             csvText(row, lines.label(i));
             out.append(row).append('\n');
         }
