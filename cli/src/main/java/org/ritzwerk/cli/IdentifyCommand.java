@@ -296,6 +296,7 @@ final class IdentifyCommand implements Callable<Integer> {
         LevelSets.Split levelSets = LevelSets.split(data.context(), species);
         Ions.Atoms resolved = levelSets.others().isEmpty() ? new Ions.Atoms(List.of(), List.of())
                 : Ions.atoms(data.context(), levelSets.others(), model);
+        Ions.tierNotes(resolved.ions(), model, "identify").forEach(spec.commandLine().getErr()::println);
         OptionRules rules = new OptionRules(spec);
         String noIon = "without a one-electron ion in --species (it applies to their lines; alkali atoms and level"
                 + " lists bring their own)";

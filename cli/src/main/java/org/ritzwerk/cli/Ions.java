@@ -96,9 +96,37 @@ final class Ions {
                 throw new OptionException(species.notation() + " has " + (species.z() - species.charge())
                         + " electrons; levels and lines cover one-electron ions (H I, D I, He II, C VI, ...) so far");
             }
-            ions.add(new Ion(species, HydrogenLikeModel.of(data.nucleus(species), tier)));
+            HydrogenLikeModel model;
+            try {
+                model = HydrogenLikeModel.of(data.nucleus(species), tier.forZ(species.z()));
+            } catch (IllegalArgumentException e) {
+                // a nuclear datum the model needs is missing (a charge radius for qed, say)
+                throw new OptionException(species.notation() + ": " + e.getMessage() + "; use --model dirac, or give"
+                        + " the nucleus's data in a file of your own with --data", e);
+            }
+            ions.add(new Ion(species, model));
         }
         return ions;
+    }
+
+    /**
+     * @param ions    resolved ions
+     * @param tierId  the --model value
+     * @param command the command, for the note
+     * @return a note for each ion that took another tier than asked (the qed tier ends at
+     *         {@link HydrogenLikeModel#QED_MAX_Z}), to print on standard error
+     */
+    static List<String> tierNotes(List<Ion> ions, String tierId, String command) {
+        Tier asked = Tier.fromId(tierId);
+        List<String> notes = new ArrayList<>();
+        for (Ion ion : ions) {
+            if (ion.model().tier() != asked) {
+                notes.add("note: " + command + ": " + ion.species().notation() + " takes the " + ion.model().tier().id()
+                        + " model: the " + asked.id() + " model covers Z <= " + HydrogenLikeModel.QED_MAX_Z
+                        + " (its self-energy, an expansion in Z alpha, fails beyond), so the Lamb shift is left out");
+            }
+        }
+        return notes;
     }
 
     /** @return the entries of the --species values, each comma-separated list split; none blank */

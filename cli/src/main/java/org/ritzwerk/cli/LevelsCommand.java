@@ -118,6 +118,7 @@ final class LevelsCommand implements Callable<Integer> {
         LevelSets.Split levelSets = LevelSets.split(data.context(), ions.species);
         Ions.Atoms atoms = levelSets.levels().isEmpty() ? ions.resolveAtoms(data.context())
                 : Ions.atoms(data.context(), levelSets.others(), ions.model);
+        Ions.tierNotes(atoms.ions(), ions.model, "levels").forEach(spec.commandLine().getErr()::println);
         OptionRules rules = new OptionRules(spec);
         rules.refuseUnless("--lifetimes", levelSets.levels().isEmpty(), "for species with a level list "
                 + levelSets.levels().stream().map(l -> l.species().notation()).toList() + " (a level list gives no"

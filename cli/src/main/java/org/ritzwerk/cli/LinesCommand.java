@@ -116,6 +116,7 @@ final class LinesCommand implements Callable<Integer> {
         LevelSets.Split levelSets = LevelSets.split(data.context(), ions.species);
         Ions.Atoms atoms = levelSets.levels().isEmpty() ? ions.resolveAtoms(data.context())
                 : Ions.atoms(data.context(), levelSets.others(), ions.model);
+        Ions.tierNotes(atoms.ions(), ions.model, "lines").forEach(spec.commandLine().getErr()::println);
         OptionRules rules = new OptionRules(spec);
         boolean single = transition != null || ladder != null;
         String singleOption = transition != null ? "--transition" : "--ladder";

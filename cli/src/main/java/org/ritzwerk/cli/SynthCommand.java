@@ -233,6 +233,7 @@ final class SynthCommand implements Callable<Integer> {
         LevelSets.Split levelSets = LevelSets.split(data.context(), ions.species);
         Ions.Atoms atoms = levelSets.others().isEmpty() ? new Ions.Atoms(List.of(), List.of())
                 : Ions.atoms(data.context(), levelSets.others(), ions.model);
+        Ions.tierNotes(atoms.ions(), ions.model, "synth").forEach(spec.commandLine().getErr()::println);
         List<Ions.Ion> resolved = atoms.ions();
         OptionRules rules = new OptionRules(spec);
         String noIon = "without a one-electron ion in --species (";

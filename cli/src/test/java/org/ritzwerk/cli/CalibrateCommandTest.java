@@ -345,6 +345,15 @@ class CalibrateCommandTest {
         assertEquals(2, straight.code(), straight.err());
         assertTrue(straight.err().contains("fixed degree-1 polynomial") && straight.err().contains("fix a higher one"),
                 straight.err());
+        // A fixed degree the pairs cannot carry is refused in the user's terms (it was an internal error).
+        Path few = dir.resolve("few.csv");
+        assertEquals(0, CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "700,0.06", "--pixels", "1024",
+                "--medium", "air", "--temperature", "400", "--resolving-power", "4000", "--read-noise", "4",
+                "--seed", "3", "--out", few.toString()).code());
+        CliTest.Run high = CliTest.run("calibrate", few.toString(), "--lamp", "Ne I", "--degree", "9");
+        assertEquals(2, high.code(), high.err());
+        assertTrue(high.err().contains("a degree-9 solution needs at least 11 paired lines; 6 were paired"),
+                high.err());
         // A prior without a wavelength range says so instead of printing infinity.
         CliTest.Run falling = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--dispersion-range",
                 "-0.2,-0.1");

@@ -56,6 +56,26 @@ class LevelsAndLinesCommandTest {
         assertEquals(1.596e-9, levels.get(2).get("lifetime_s").asDouble(), 1e-12);      // Wiese & Fuhr 2009
         assertTrue(json(CliTest.run("levels", "--species", "H", "--n-max", "1", "--format", "json")).get(0)
                 .get("lifetime_s") == null, "no lifetime field unless asked");
+        // 2s: its two-photon decay, 0.1216 s (from memory); it was 1.25e9 s from the E1 branch alone.
+        assertEquals(0.1216, levels.get(1).get("lifetime_s").asDouble(), 1e-4);
+    }
+
+    /**
+     * Heavy ions take the dirac model with a note (the qed model's Z alpha expansion of the
+     * self-energy fails above Z = 30); an ion whose nucleus lacks the datum qed needs is refused
+     * as bad input, not an internal error.
+     */
+    @Test
+    void heavyIonsAndMissingNuclearDataAreSaidPlainly() {
+        CliTest.Run heavy = CliTest.run("levels", "--species", "U XCII", "--n-max", "1", "--format", "json");
+        assertEquals(0, heavy.code(), heavy.err());
+        assertEquals("dirac", json(heavy).get(0).get("model").asString());
+        assertTrue(heavy.err().contains("note: levels: U XCII takes the dirac model: the qed model covers Z <= 30"),
+                heavy.err());
+        CliTest.Run sulphur = CliTest.run("levels", "--species", "S-33 XVI", "--n-max", "1");
+        assertEquals(2, sulphur.code(), sulphur.err());
+        assertTrue(sulphur.err().contains("S-33 XVI: the qed tier needs the nuclear charge radius of S-33"),
+                sulphur.err());
     }
 
     @Test

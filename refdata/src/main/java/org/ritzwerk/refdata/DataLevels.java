@@ -40,7 +40,7 @@ public final class DataLevels {
         LevelSources sources = LevelSources.none();
         for (Species s : species) {
             if (s.isHydrogenLike()) {
-                sources = sources.withHydrogenLike(s, HydrogenLikeModel.of(context.nucleus(s), tier));
+                sources = sources.withHydrogenLike(s, HydrogenLikeModel.of(context.nucleus(s), tier.forZ(s.z())));
             } else if (s.charge() == 0 && context.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z())) {
                 sources = sources.withAlkali(context.alkaliAtom(s), hyperfine(context, context.alkaliAtom(s)
                         .species()));

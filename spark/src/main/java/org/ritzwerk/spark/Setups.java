@@ -95,7 +95,7 @@ final class Setups {
         for (String text : species) {
             Species parsed = Species.parse(text.strip());
             if (parsed.isHydrogenLike()) {
-                ions.add(new Ion(parsed, HydrogenLikeModel.of(data.nucleus(parsed), tier)));
+                ions.add(new Ion(parsed, HydrogenLikeModel.of(data.nucleus(parsed), tier.forZ(parsed.z()))));
             } else if (parsed.charge() == 0 && data.alkaliSpecies().stream().anyMatch(s -> s.z() == parsed.z())) {
                 alkalis.add(data.alkaliAtom(parsed));
             } else if (data.levelList(parsed).isPresent()) {

@@ -296,6 +296,7 @@ public final class Calibrator {
                 .withMinInlierFraction(minMatched).withSecondOrder(secondOrder);
         LampMatch first = matcher.match(peaks, lamp.lines());
         DispersionFit fit = fit();
+        requirePairsForDegree(first);
         LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, lamp.lines(),
                 lamp.speciesArray(), tolerance);
         // Saturated peaks are centred from their wings: they are paired (and reported) but left
@@ -312,6 +313,7 @@ public final class Calibrator {
         for (int i = 0; i < saturatedOnly.length; i++) {
             saturatedOnly[i] = fitted != refined && !unsaturated[i];
         }
+        requirePairsForDegree(fitted);
         DispersionSolution solution = fitted.fit(fit);
         checkPlausible(problem, solution);
         // Pairs whose peaks look like unresolved blends carry the note "blend" into the saved record.
@@ -386,6 +388,18 @@ public final class Calibrator {
                             + "accepted %.3g: %s; raise the accepted limit (a library setting) only if the centroid "
                             + "uncertainties are known to be too small",
                     problem.source(), chi2, solution.usedCount(), solution.rmsPixels(), maxChi2, cause));
+        }
+    }
+
+    /**
+     * A fixed degree needs two pairs more than it has coefficients' worth of freedom (k + 2): with
+     * fewer, the refusal says so in the user's terms (it was the fit's precondition error).
+     */
+    private void requirePairsForDegree(LampMatch pairs) {
+        if (degree > 0 && pairs.size() < degree + 2) {
+            throw new CalibrationException(CalibrationException.TOO_FEW_MATCHES, "a degree-" + degree
+                    + " solution needs at least " + (degree + 2) + " paired lines; " + pairs.size()
+                    + " were paired (saturated ones left out of the fit): lower the degree or let it be chosen");
         }
     }
 

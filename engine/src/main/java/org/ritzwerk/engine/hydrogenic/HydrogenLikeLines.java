@@ -282,17 +282,34 @@ public final class HydrogenLikeLines {
      * @param n    principal quantum number
      * @param l    orbital quantum number
      * @param twoJ twice j
-     * @return the radiative lifetime 1 / sum(A) in s from E1 decays; positive infinity when the
-     *         level has none (see the class comment). The branching ratio of decay i is
-     *         {@code decays(n, l, twoJ).einsteinA(i) * lifetime(n, l, twoJ)}.
+     * @return the radiative lifetime 1 / sum(A) in s from E1 decays, and for 2s1/2 also from
+     *         {@link #metastableDecayRate}; positive infinity when the level has none (see the
+     *         class comment). The branching ratio of E1 decay i is
+     *         {@code decays(n, l, twoJ).einsteinA(i) * lifetime(n, l, twoJ)} (for 2s1/2 they add up to
+     *         less than 1: the rest goes to 1s by two photons or a magnetic-dipole photon).
      */
     public double lifetime(int n, int l, int twoJ) {
         LineTable decays = decays(n, l, twoJ);
-        double total = 0;
+        double total = n == 2 && l == 0 ? metastableDecayRate() : 0;
         for (int i = 0; i < decays.size(); i++) {
             total += decays.einsteinA(i);
         }
         return 1 / total;
+    }
+
+    /**
+     * The decay of 2s1/2 to 1s1/2 that is not an E1 line, s^-1: two photons (2E1),
+     * 8.2290 Z^6 (m_r / m_e), and one magnetic-dipole photon, 2.496e-6 Z^10 (nonrelativistic
+     * two-photon rate and the leading-order M1 rate, both from memory; relativistic corrections,
+     * tens of per cent for the heaviest ions, left out). For hydrogen 8.2245 s^-1, a lifetime of
+     * 0.1216 s; for U XCII the M1 decay dominates, about 1e-14 s.
+     *
+     * @return the rate in s^-1
+     */
+    public double metastableDecayRate() {
+        double z = model.nucleus().z();
+        double electronToNucleus = PhysicalConstants.ELECTRON_MASS.value() / model.nucleus().massKg();
+        return 8.2290 * Math.pow(z, 6) / (1 + electronToNucleus) + 2.496e-6 * Math.pow(z, 10);
     }
 
     private void addComponents(int nU, int nL, double minHertz, double maxHertz, LineTable.Builder lines) {

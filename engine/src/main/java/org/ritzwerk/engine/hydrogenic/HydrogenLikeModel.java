@@ -45,6 +45,15 @@ import org.ritzwerk.engine.internal.radial.RadialIntegrals;
  */
 public final class HydrogenLikeModel {
 
+    /**
+     * The highest nuclear charge of the {@link Tier#QED} and {@link Tier#HYPERFINE} tiers (zinc).
+     * Their one-loop self-energy is its expansion in Z alpha, whose 1s coefficient is 3 % above
+     * the all-order value at Z = 10 and grows to three times it at Z = 92 (Mohr's all-order
+     * values, from memory): there it would put U XCII's 1s level 600 eV off, worse than leaving
+     * the Lamb shift out. Heavier ions take the Dirac tier ({@link Tier#forZ}).
+     */
+    public static final int QED_MAX_Z = 30;
+
     private final Nucleus nucleus;
     private final Tier tier;
     private final double alpha;
@@ -69,6 +78,11 @@ public final class HydrogenLikeModel {
             throw new IllegalArgumentException(String.format(Locale.ROOT,
                     "the %s tier needs Z alpha < 1, got Z alpha = %s for Z = %d", tier.id(), zAlpha, nucleus.z()));
         }
+        if ((tier == Tier.QED || tier == Tier.HYPERFINE) && nucleus.z() > QED_MAX_Z) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "the %s tier covers Z <= %d (its"
+                    + " self-energy, an expansion in Z alpha, fails beyond); Z = %d takes the dirac tier"
+                    + " (Tier.forZ), without the Lamb shift", tier.id(), QED_MAX_Z, nucleus.z()));
+        }
         if ((tier == Tier.QED || tier == Tier.HYPERFINE) && nucleus.chargeRadius().isEmpty()) {
             throw new IllegalArgumentException("the " + tier.id() + " tier needs the nuclear charge radius of "
                     + Elements.symbol(nucleus.z()) + "-" + nucleus.massNumber() + ", which is not given");
@@ -84,7 +98,8 @@ public final class HydrogenLikeModel {
      *                moment for {@link Tier#HYPERFINE} when it has spin
      * @param tier    the level model
      * @return the model
-     * @throws IllegalArgumentException naming a missing nuclear datum or Z alpha &gt;= 1
+     * @throws IllegalArgumentException naming a missing nuclear datum, Z alpha &gt;= 1, or the qed
+     *         or hyperfine tier above {@link #QED_MAX_Z}
      */
     public static HydrogenLikeModel of(Nucleus nucleus, Tier tier) {
         return new HydrogenLikeModel(nucleus, tier, PhysicalConstants.FINE_STRUCTURE.value());

@@ -37,6 +37,18 @@ public enum Tier {
      */
     HYPERFINE;
 
+    /**
+     * The tier to use for an ion of nuclear charge z: this one, except that {@link #QED} and
+     * {@link #HYPERFINE} become {@link #DIRAC} above {@link HydrogenLikeModel#QED_MAX_Z}, where
+     * their expansion of the self-energy in Z alpha no longer holds (see there).
+     *
+     * @param z the nuclear charge
+     * @return the tier for that ion
+     */
+    public Tier forZ(int z) {
+        return (this == QED || this == HYPERFINE) && z > HydrogenLikeModel.QED_MAX_Z ? DIRAC : this;
+    }
+
     /** Error code of a tier name that is not one of the known ones. */
     public static final String UNKNOWN = "level-model.unknown";
 

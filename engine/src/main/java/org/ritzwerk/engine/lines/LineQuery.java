@@ -322,7 +322,8 @@ public final class LineQuery {
     }
 
     private LineSet hydrogenLike(Species ion, HydrogenLikeModel own, DoubleConsumer told) {
-        HydrogenLikeModel model = tier == null || tier == own.tier() ? own : HydrogenLikeModel.of(own.nucleus(), tier);
+        HydrogenLikeModel model = tier == null || tier == own.tier() ? own
+                : HydrogenLikeModel.of(own.nucleus(), tier.forZ(own.nucleus().z()));
         HydrogenLikeLines generator = HydrogenLikeLines.of(model);
         LineTable table;
         if (first != null) {

@@ -106,6 +106,31 @@ class PublishedHydrogenTest {
         assertEquals(hydrogen.energy(1, 0, 1), h.energy(1, 0, 1), 0.0);
     }
 
+    /**
+     * The 2s lifetime of hydrogen, 0.1216 s (its two-photon decay, 8.229 s^-1 for an infinitely
+     * heavy nucleus, from memory), and of He II, 1.90 ms (Z^6 scaling); the E1 decay across the
+     * Lamb shift is a part in 1e10 of it. It was 1.25e9 s, the E1 branch alone. Above Z = 30 the
+     * qed tier is refused and Tier.forZ gives dirac, whose U XCII 2s lives about 1e-14 s (the
+     * magnetic-dipole decay, 2.5e-6 Z^10 s^-1, from memory).
+     */
+    @Test
+    void twoSLivesByItsTwoPhotonAndMagneticDipoleDecays() {
+        HydrogenLikeLines h = HydrogenLikeLines.of(hydrogen);
+        assertEquals(0.1216, h.lifetime(2, 0, 1), 0.0001);
+        assertTrue(h.decays(2, 0, 1).einsteinA(0) * h.lifetime(2, 0, 1) < 1e-9, "the E1 branch to 2p1/2");
+        HydrogenLikeLines he = HydrogenLikeLines.of(HydrogenLikeModel.of(Nuclei.infinitelyHeavy(2), Tier.DIRAC));
+        assertEquals(1.0 / (8.2290 * 64 + 2.496e-6 * 1024), he.lifetime(2, 0, 1), 1e-9);
+        assertEquals(Tier.DIRAC, Tier.QED.forZ(92));
+        assertEquals(Tier.QED, Tier.QED.forZ(30));
+        assertEquals(Tier.BOHR, Tier.BOHR.forZ(92));
+        String message = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                () -> HydrogenLikeModel.of(Nuclei.infinitelyHeavy(31), Tier.QED)).getMessage();
+        assertTrue(message.startsWith("the qed tier covers Z <= 30"), message);
+        HydrogenLikeLines u = HydrogenLikeLines.of(HydrogenLikeModel.of(Nuclei.infinitelyHeavy(92),
+                Tier.QED.forZ(92)));
+        assertEquals(9e-15, u.lifetime(2, 0, 1), 2e-15);
+    }
+
     @Test
     void ratesOfWieseAndFuhr2009() {
         HydrogenLikeLines lines = HydrogenLikeLines.of(hydrogen);

@@ -28,8 +28,8 @@ import org.ritzwerk.refdata.NuclearData;
 import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
- * Computed data sets: the levels and lines (n &lt;= 10, QED tier) of the one-electron ion of every
- * isotope in the built-in nuclear data that the engine can model, e.g. {@code computed-he-ii-levels}
+ * Computed data sets: the levels and lines (n &lt;= 10, QED tier; Dirac above Z = 30) of the
+ * one-electron ion of every isotope in the built-in nuclear data that the engine can model, e.g. {@code computed-he-ii-levels}
  * and {@code computed-he-ii-lines}. Lines are vacuum wavelengths in nm with Einstein A. Computed
  * when loaded. Thread-safe.
  *
@@ -83,7 +83,8 @@ public final class HydrogenLikeProvider implements ReferenceDataProvider {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
                     "no computed set '" + dataSetId + "'");
         }
-        HydrogenLikeModel model = HydrogenLikeModel.of(nuclear.get().nucleus(entry.species()), Tier.QED);
+        HydrogenLikeModel model = HydrogenLikeModel.of(nuclear.get().nucleus(entry.species()),
+                Tier.QED.forZ(entry.species().z()));
         return entry.levels() ? levels(entry.info(), entry.species(), model) : lines(entry.info(), entry.species(), model);
     }
 
@@ -101,13 +102,14 @@ public final class HydrogenLikeProvider implements ReferenceDataProvider {
                 Species species = new Species(isotope.z(), defaultIsotope && !hydrogenIsotope ? 0
                         : isotope.massNumber() == 1 ? 0 : isotope.massNumber(), isotope.z() - 1);
                 String stem = "computed-" + species.notation().toLowerCase(Locale.ROOT).replace(' ', '-');
-                Provenance provenance = Provenance.computedBy("Ritzwerk hydrogen-like model, qed tier, n <= " + N_MAX
-                        + ", nuclear data " + data.info().id());
+                String tier = Tier.QED.forZ(isotope.z()).id();
+                Provenance provenance = Provenance.computedBy("Ritzwerk hydrogen-like model, " + tier + " tier, n <= "
+                        + N_MAX + ", nuclear data " + data.info().id());
                 made.put(stem + "-levels", new Entry(new DataSetInfo(stem + "-levels", DataKind.LEVELS,
-                        species.notation() + " levels n <= " + N_MAX + " (computed)", "qed", provenance,
+                        species.notation() + " levels n <= " + N_MAX + " (computed)", tier, provenance,
                         List.of(species)), species, true));
                 made.put(stem + "-lines", new Entry(new DataSetInfo(stem + "-lines", DataKind.LINES,
-                        species.notation() + " E1 lines, upper n <= " + N_MAX + " (computed)", "qed", provenance,
+                        species.notation() + " E1 lines, upper n <= " + N_MAX + " (computed)", tier, provenance,
                         List.of(species)), species, false));
             }
             listed = java.util.Collections.unmodifiableMap(made);
