@@ -424,6 +424,20 @@ final class CalibrateCommand implements Callable<Integer> {
             w.printf(Locale.ROOT, "Largest stated uncertainty between those lines: %.3g pixel (%.2g nm) near pixel"
                     + " %.1f%n", calibration.largestSigmaPixels(), solution.wavelengthSigmaAt(at), at);
         }
+        w.printf(Locale.ROOT, "Outermost lines as the other lines predict them: %s at pixel %.1f, %s at pixel %.1f"
+                + " (a wrong pairing at an end shows only when it is well beyond this)%n",
+                confirmation(calibration.endConfirmationPixels(false)), calibration.endConfirmationAtPixel(false),
+                confirmation(calibration.endConfirmationPixels(true)), calibration.endConfirmationAtPixel(true));
+        for (boolean high : new boolean[] {false, true}) {
+            double check = calibration.endConfirmationPixels(high);
+            if (!(check <= Math.max(0.1, 6 * calibration.largestSigmaPixels()))) {
+                spec.commandLine().getErr().printf(Locale.ROOT, "note: the outermost line at pixel %.1f is checked by"
+                        + " the other lines %s; near it the solution rests on that one pairing (its stated"
+                        + " uncertainty assumes the pairing is right; --required-precision refuses such solutions)%n",
+                        calibration.endConfirmationAtPixel(high), Double.isNaN(check) ? "not at all"
+                                : String.format(Locale.ROOT, "only to +-%.3g pixel", check));
+            }
+        }
         w.println();
         LampMatch match = calibration.match();
         LampMatch saturatedPairs = calibration.saturatedPairs();
@@ -530,5 +544,10 @@ final class CalibrateCommand implements Callable<Integer> {
             OutputFiles.writeString(out, text);
         }
         return 0;
+    }
+    /** @return "+-0.70 pixel", or "unchecked" when too few other lines remain */
+    private static String confirmation(double pixels) {
+        return Double.isNaN(pixels) ? "unchecked (too few other lines)" : String.format(Locale.ROOT, "+-%.3g pixel",
+                pixels);
     }
 }

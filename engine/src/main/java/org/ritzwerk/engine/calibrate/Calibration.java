@@ -22,6 +22,8 @@ public final class Calibration {
     private final List<String> pairLabels;
     /** {@link #largestSigmaPixels()} and the pixel where it is reached, computed once. */
     private final double[] largestSigma;
+    /** {lowest end's confirmation, its pixel, highest end's confirmation, its pixel}; see {@link #endConfirmationPixels}. */
+    private final double[] endConfirmation;
 
     Calibration(CalibrationProblem problem, Calibrator settings, Peaks peaks, LampMatch firstMatch, LampMatch match,
             LampMatch saturatedPairs, DispersionSolution solution) {
@@ -38,6 +40,75 @@ public final class Calibration {
         }
         this.pairLabels = List.copyOf(labels);
         this.largestSigma = findLargestSigma();
+        this.endConfirmation = new double[] {confirmation(false), endPixel(false), confirmation(true), endPixel(true)};
+    }
+
+    /**
+     * How well the other fitted lines check the outermost one at an end of the fitted range: the
+     * standard uncertainty, in pixels, with which the polynomial of the solution's degree, fitted
+     * to every other pair used, predicts that line's pixel. A wrong pairing at an end (a foreign
+     * line beside a missing or weak lamp line, a few pixels off) moves the solution there by its
+     * offset while its own residual stays small; the other lines show it only when this figure is
+     * well below the offset. It grows with the gap between the end line and the rest.
+     *
+     * @param high the end at the highest pixel, else the lowest
+     * @return the uncertainty in pixels; NaN when too few pairs remain for the degree or the fit
+     *         has no covariance
+     */
+    public double endConfirmationPixels(boolean high) {
+        return endConfirmation[high ? 2 : 0];
+    }
+
+    /**
+     * @param high the end at the highest pixel, else the lowest
+     * @return the pixel of the outermost used pair at that end
+     */
+    public double endConfirmationAtPixel(boolean high) {
+        return endConfirmation[high ? 3 : 1];
+    }
+
+    private double endPixel(boolean high) {
+        return high ? highestUsedPixel() : lowestUsedPixel();
+    }
+
+    private double confirmation(boolean high) {
+        int end = -1;
+        for (int i = 0; i < solution.size(); i++) {
+            if (!solution.isRejected(i) && (end < 0 || (high ? solution.pixel(i) > solution.pixel(end)
+                    : solution.pixel(i) < solution.pixel(end)))) {
+                end = i;
+            }
+        }
+        int degree = solution.degree();
+        int n = 0;
+        for (int i = 0; i < solution.size(); i++) {
+            n += !solution.isRejected(i) && i != end ? 1 : 0;
+        }
+        if (end < 0 || n < degree + 2) {
+            return Double.NaN;
+        }
+        double[] pixel = new double[n];
+        double[] pixelSigma = new double[n];
+        double[] nm = new double[n];
+        double[] nmSigma = new double[n];
+        int k = 0;
+        for (int i = 0; i < solution.size(); i++) {
+            if (!solution.isRejected(i) && i != end) {
+                pixel[k] = match.pixel(i);
+                pixelSigma[k] = match.pixelSigma(i);
+                nm[k] = match.wavelength(i);
+                nmSigma[k] = match.wavelengthSigma(i);
+                k++;
+            }
+        }
+        try {
+            DispersionSolution others = DispersionFit.ofDegree(degree).fit(pixel, pixelSigma, nm, nmSigma,
+                    solution.medium());
+            double p = solution.pixel(end);
+            return others.wavelengthSigmaAt(p) / Math.abs(others.dispersionAt(p));
+        } catch (IllegalArgumentException e) {
+            return Double.NaN; // the others alone do not fix a solution of this degree
+        }
     }
 
     /** @return the problem solved */

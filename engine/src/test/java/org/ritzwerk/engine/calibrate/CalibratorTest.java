@@ -12,6 +12,10 @@ import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.Provenance;
+import org.ritzwerk.engine.synth.Instrument;
+import org.ritzwerk.engine.synth.LineRenderer;
+import org.ritzwerk.engine.synth.Noise;
+import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
 
@@ -56,6 +60,64 @@ class CalibratorTest {
         assertEquals(refined.size(), job.pairLabels().size());
         assertTrue(job.pairLabel(0).startsWith("Ne I "), job.pairLabel(0));
         assertTrue(job.pairLabel(0).endsWith(" nm air"), job.pairLabel(0));
+    }
+
+    /**
+     * A wrong pairing at an end that no residual shows: an invented 1024-pixel spectrometer
+     * (526.085 + 0.13483 p + 2.5199e-5 p^2 nm, lines 2.5 pixels wide) sees the neon lamp without
+     * its 540.056 nm line, and a foreign line 0.28 nm (2 pixels) below it, 300 pixels short of the
+     * next lamp line. The cubic bends to take the foreign line as 540.056 nm (it was accepted 2
+     * pixels off near that end while stating 0.04 pixel there, with a 0.05 requirement too). The
+     * other lines check that end only through a long extrapolation, which the end check states;
+     * under a required precision (0.07 pixel, which the stated uncertainty alone meets) the
+     * solution is refused, naming the line.
+     */
+    @Test
+    void anEndLineTheOthersCannotCheckIsRefusedUnderARequiredPrecision() {
+        double[] truth = {526.0846936765743, 0.13482751680094834, 2.519850719821224e-05};
+        PixelGrid grid = PixelGrid.dispersion(truth, 1024);
+        java.util.List<Double> at = new java.util.ArrayList<>();
+        java.util.List<Double> flux = new java.util.ArrayList<>();
+        double sigmaPixels = 2.5 / (2 * Math.sqrt(2 * Math.log(2)));
+        for (int k = 0; k < LampScene.NEON_NM.length; k++) {
+            double nm = LampScene.NEON_NM[k];
+            if (nm > grid.lowest() && nm < grid.highest() && nm != 540.05618) {
+                at.add(nm);
+                flux.add(2.0 * LampScene.NEON_INTENSITY[k] * sigmaPixels * Math.sqrt(2 * Math.PI));
+            }
+        }
+        at.add(539.7747);           // the foreign line
+        flux.add(660 * sigmaPixels * Math.sqrt(2 * Math.PI));
+        double[] position = at.stream().mapToDouble(Double::doubleValue).toArray();
+        double[] pixelFlux = flux.stream().mapToDouble(Double::doubleValue).toArray();
+        double[] expected = new double[1024];
+        java.util.Arrays.fill(expected, 40);
+        // Widths in nm: 2.5 pixels at each line's local dispersion; fluxes are counts (height x sigma x sqrt(2 pi)).
+        double[] gauss = new double[position.length];
+        for (int k = 0; k < position.length; k++) {
+            double p = (position[k] - truth[0]) / truth[1];
+            double dispersion = truth[1] + 2 * truth[2] * p;
+            gauss[k] = 2.5 * dispersion;
+        }
+        new LineRenderer(grid, Instrument.ideal(), 12).render(position, pixelFlux, gauss, new double[position.length],
+                expected);
+        double[] counts = new double[1024];
+        Noise.apply(expected, 5, 7, counts);
+        LampSet lamp = LampSet.of(List.of(neonList(Medium.air())), Medium.air());
+        CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(lamp).source("ends").build();
+        Calibration accepted = Calibrator.defaults().calibrate(problem);
+        double low = accepted.endConfirmationPixels(false);
+        assertTrue(low > 0.3 && low > 6 * accepted.largestSigmaPixels(), "end check " + low + " against stated "
+                + accepted.largestSigmaPixels() + " from pixel " + accepted.lowestUsedPixel());
+        CalibrationException refused = assertThrows(CalibrationException.class,
+                () -> Calibrator.defaults().withRequiredPrecision(0.07).calibrate(problem));
+        assertEquals(CalibrationException.IMPRECISE, refused.code());
+        assertTrue(refused.getMessage().contains("the outermost fitted line at pixel 99.7 is checked by the other lines"
+                + " only to"), refused.getMessage());
+        // The truth there: pixel 99.7 sees the foreign line's 539.7747 nm, not 540.05618.
+        double p = accepted.endConfirmationAtPixel(false);
+        double truthNm = truth[0] + p * (truth[1] + p * truth[2]);
+        assertTrue(Math.abs(accepted.solution().wavelengthAt(p) - truthNm) > 0.2, "the pairing is wrong");
     }
 
     @Test

@@ -315,7 +315,9 @@ class CalibrationSweepTest {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6,
                 Calibrator.defaults().withRequiredPrecision(0.05));
         assertEquals(0, outcome.wrong() + outcome.imprecise(), outcome.toString());
-        assertTrue(outcome.solved() >= 16, outcome.toString());
+        // 15 solved (16 before the end check, which also refuses seed 1: its last line is checked by
+        // the others only to 0.63 pixel).
+        assertTrue(outcome.solved() >= 15, outcome.toString());
     }
 
     @Test
