@@ -307,8 +307,10 @@ public final class Identification {
      * correction of J. Cohen, Educ. Psychol. Meas. 20, 37 (1960), cited from memory).
      * {@code presence} takes k at its one-sided 99 % lower bound (normal approximation),
      * {@code (k - mu - 2.326 sqrt(v)) / (n - mu)}, clipped to [0, 1], and is 0 when n - mu is
-     * not positive (chance alone explains every strong line). Random peaks thus give presence 0
-     * in about 99 % of cases whatever their density; a species whose strong lines are all found
+     * not positive (chance alone explains every strong line) or when chance gives k or more
+     * matches more often than 1 % of the time ({@code chanceProbability} above 0.01: the normal
+     * bound alone gave random peaks presence 0.2 where chance expects 0.03 matches and one came).
+     * Random peaks thus give presence 0 in at least 99 % of cases whatever their density; a species whose strong lines are all found
      * among sparse peaks gets nearly 1. Limits: the chance model treats peaks as a Poisson
      * process of the local density and lines as independent; with few strong lines in range
      * the bound is loose (one strong line found where chance expects 0.01 or 0.001 gives 0.77
@@ -362,7 +364,10 @@ public final class Identification {
             double chance = n == 0 ? Double.NaN : chanceProbability(strongRates[s], n, k, mu, strongVariance[s]);
             double share = Double.NaN;
             if (n > 0) {
-                share = n - mu > 1e-12 ? (k - mu - Z_99 * Math.sqrt(strongVariance[s])) / (n - mu) : 0;
+                // Counts that chance gives more often than 1 % of the time show nothing: 0, whatever the
+                // normal approximation of the bound below says where chance expects a fraction of a line.
+                share = n - mu > 1e-12 && !(chance > 0.01)
+                        ? (k - mu - Z_99 * Math.sqrt(strongVariance[s])) / (n - mu) : 0;
                 share = Math.max(0, Math.min(1, share));
             }
             presence.add(new SpeciesPresence(lines.speciesList().get(s), matched[s], matchedByChance[s], n, k, mu,

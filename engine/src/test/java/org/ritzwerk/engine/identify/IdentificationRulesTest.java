@@ -76,6 +76,34 @@ class IdentificationRulesTest {
     }
 
     /**
+     * Short random lists (60 peaks between 350 and 1000 nm, 0.01 nm uncertainty, 400 lists,
+     * 2000 judgements): presence stays 0 unless chance gives the observed count at most 1 % of
+     * the time, so no more than about 1 % of judgements show any presence (the normal bound alone
+     * gave presence 0.2 where chance expected 0.03 strong lines and one came).
+     */
+    @Test
+    void shortRandomListsShowPresenceAtMostAsOftenAsTheBoundAllows() {
+        LineCatalog lines = offered(9L);
+        int judged = 0;
+        int present = 0;
+        for (long seed = 1; seed <= 400; seed++) {
+            Identification result = Identifier.of(Tolerance.kSigma(5)).identify(randomPeaks(60, 1e-11, seed), lines);
+            for (Identification.SpeciesPresence p : result.speciesPresence()) {
+                if (p.strongInRange() == 0) {
+                    continue;
+                }
+                judged++;
+                if (p.presence() > 0) {
+                    present++;
+                    assertTrue(p.chanceProbability() <= 0.01, p.toString());
+                }
+            }
+        }
+        assertTrue(judged > 1500, "judgements " + judged);
+        assertTrue(present <= 0.015 * judged, present + " of " + judged + " judgements show presence");
+    }
+
+    /**
      * A synthetic real scene (H I and He II lines of at least 0.1 % of their strongest g A, 1 pm
      * noise, 10 % spurious peaks): both species present with presence at least 0.9 and a chance
      * probability below 1 % (He II has a single strong line in range); C VI and the invented sets, offered but absent, stay low.
