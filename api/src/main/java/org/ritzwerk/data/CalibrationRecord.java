@@ -106,13 +106,20 @@ public record CalibrationRecord(String description, int pixels, DispersionPolyno
      * @param used           whether the final fit used the pair (false: clipping rejected it)
      * @param line           the line's label; not null
      * @param flag           a note on the pair, empty when none; {@value #BLEND} when its peak looks
-     *                       like an unresolved blend and its uncertainty was widened for that; not null
+     *                       like an unresolved blend and its uncertainty was widened for that,
+     *                       {@value #SATURATED} when it saturated and was kept in the fit; not null
      */
     public record FittedLine(double pixel, double wavelengthNm, double sigmaNm, double residualNm,
             double residualPixels, boolean used, String line, String flag) {
 
         /** The flag of a pair whose peak looks like an unresolved blend (its uncertainty widened). */
         public static final String BLEND = "blend";
+
+        /**
+         * The flag of a pair whose peak saturated but which was kept in the fit (without the
+         * saturated pairs too few would remain for the degree); its centroid comes from the wings.
+         */
+        public static final String SATURATED = "saturated";
 
         /**
          * A pair with no flag.

@@ -111,7 +111,8 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Option(names = "--saturation", paramLabel = "COUNTS",
             description = "Counts at which the detector saturates; such peaks are paired, flagged 'saturated' and "
-                    + "left out of the fit.")
+                    + "left out of the fit (kept in it, with a note, when too few pairs would remain for the "
+                    + "degree).")
     Double saturation;
 
     @Option(names = "--tolerance", paramLabel = "PIXELS", defaultValue = "3",
@@ -471,8 +472,15 @@ final class CalibrateCommand implements Callable<Integer> {
         }
         int saturated = calibration.saturatedPeaks();
         if (saturated > 0) {
+            int fittedSaturated = 0;
+            for (int i = 0; i < match.size(); i++) {
+                fittedSaturated += calibration.peaks().has(match.peakIndex(i),
+                        org.ritzwerk.engine.calibrate.PeakFlag.SATURATED) ? 1 : 0;
+            }
             w.printf(Locale.ROOT, "%nNote: %d peak(s) reached the saturation level; their centroids come from the wings"
-                    + " and %d paired one(s) were left out of the fit.%n", saturated, saturatedPairs.size());
+                    + " and %d paired one(s) were left out of the fit%s.%n", saturated, saturatedPairs.size(),
+                    fittedSaturated == 0 ? "" : String.format(Locale.ROOT, "; %d were kept in it, since without them"
+                            + " too few pairs remain for a degree-%d solution", fittedSaturated, solution.degree()));
         }
         w.flush();
     }

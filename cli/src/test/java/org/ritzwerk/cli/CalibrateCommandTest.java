@@ -354,6 +354,25 @@ class CalibrateCommandTest {
         assertEquals(2, high.code(), high.err());
         assertTrue(high.err().contains("a degree-9 solution needs at least 11 paired lines; 6 were paired"),
                 high.err());
+        // Saturation that leaves too few unsaturated pairs for the degree keeps the saturated pairs in
+        // the fit, flagged, instead of refusing a right pairing (a straight line through 4 pairs of a
+        // curved dispersion was refused as a wrong pairing). Argon at 100,000 counts clipped at 20,000.
+        Path bright = dir.resolve("bright.csv");
+        assertEquals(0, CliTest.run("synth", "--lines", "lamp-ar-i", "--dispersion", "690,0.12,-1e-5", "--pixels",
+                "2048", "--medium", "air", "--temperature", "300", "--resolving-power", "3000", "--peak-counts",
+                "100000", "--read-noise", "5", "--seed", "4", "--out", bright.toString()).code());
+        StringBuilder clipped = new StringBuilder();
+        for (String row : Files.readAllLines(bright)) {
+            String[] c = row.split(",");
+            clipped.append(row.startsWith("#") || row.startsWith("wavelength") ? row
+                    : c[0] + "," + c[1] + "," + Math.min(20_000, Double.parseDouble(c[2]))).append('\n');
+        }
+        Files.writeString(bright, clipped.toString());
+        CliTest.Run clippedRun = CliTest.run("calibrate", bright.toString(), "--lamp", "Ar I", "--saturation",
+                "20000");
+        assertEquals(0, clippedRun.code(), clippedRun.err());
+        assertTrue(clippedRun.out().contains(" saturated\n") && clippedRun.out().contains("were kept in it, since"
+                + " without them too few pairs remain"), clippedRun.out());
         // A prior without a wavelength range says so instead of printing infinity.
         CliTest.Run falling = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--dispersion-range",
                 "-0.2,-0.1");

@@ -300,15 +300,18 @@ public final class Calibrator {
         LampMatch refined = IdentifierRefinement.refine(first, first.fit(fit), peaks, lamp.lines(),
                 lamp.speciesArray(), tolerance);
         // Saturated peaks are centred from their wings: they are paired (and reported) but left
-        // out of the fit, unless too few pairs would remain for a straight line.
+        // out of the fit, unless too few pairs would remain for the degree the whole set takes
+        // (its degree plus three: the automatic choice needs that room; with fewer it fell back to
+        // a straight line through a curved dispersion and refused a right pairing).
         boolean[] unsaturated = new boolean[refined.size()];
         int kept = 0;
         for (int i = 0; i < refined.size(); i++) {
             unsaturated[i] = !peaks.has(refined.peakIndex(i), PeakFlag.SATURATED);
             kept += unsaturated[i] ? 1 : 0;
         }
-        LampMatch fitted = kept == refined.size() || kept < LampMatcher.MIN_FEW_LINE_MATCHES ? refined
-                : refined.subset(unsaturated);
+        int room = kept == refined.size() ? 0 : refined.fit(fit).degree() + 3;
+        LampMatch fitted = kept == refined.size() || kept < Math.max(LampMatcher.MIN_FEW_LINE_MATCHES, room)
+                ? refined : refined.subset(unsaturated);
         boolean[] saturatedOnly = new boolean[refined.size()];
         for (int i = 0; i < saturatedOnly.length; i++) {
             saturatedOnly[i] = fitted != refined && !unsaturated[i];
@@ -321,8 +324,10 @@ public final class Calibrator {
         boolean any = false;
         for (int i = 0; i < notes.length; i++) {
             boolean blend = IdentifierRefinement.blendOffsetBound(peaks, fitted.peakIndex(i)) > 0;
-            notes[i] = blend ? CalibrationRecord.FittedLine.BLEND : "";
-            any |= blend;
+            boolean saturated = peaks.has(fitted.peakIndex(i), PeakFlag.SATURATED);
+            notes[i] = blend ? CalibrationRecord.FittedLine.BLEND : saturated ? CalibrationRecord.FittedLine.SATURATED
+                    : "";
+            any |= blend || saturated;
         }
         if (any) {
             solution = solution.withPairFlags(notes);

@@ -172,7 +172,8 @@ public final class DispersionSolution {
     /**
      * @param i a fitted pair
      * @return its note ({@link CalibrationRecord.FittedLine#BLEND} for a peak that looks like an
-     *         unresolved blend, whose uncertainty was widened), "" when none
+     *         unresolved blend, whose uncertainty was widened; {@link CalibrationRecord.FittedLine#SATURATED}
+     *         for a saturated peak kept in the fit), "" when none
      */
     public String pairFlag(int i) {
         Objects.checkIndex(i, size());
