@@ -447,11 +447,12 @@ public final class LampMatcher {
         throw new CalibrationException(CalibrationException.LAMP_MISMATCH, String.format(Locale.ROOT,
                 "the lamp lines (%s) do not explain the spectrum: the best pairing matches %d of the %d strongest "
                         + "peaks (%.0f%%; %.0f%% required), %d of them within %.2f pixels of their lines where chance "
-                        + "alone would put %.1f (probability %.2g over %d distinct pairings tried; at most %.2g "
-                        + "accepted), %s",
+                        + "alone would put %.1f (probability %.2g for one pairing, so %.2g expected by chance"
+                        + " among the %d distinct pairings tried; at most %.2g accepted), %s",
                 span(lines), shown.strongMatched, shownSearch.strong.length,
                 100.0 * shown.strongMatched / shownSearch.strong.length, 100 * minInlierFraction, shown.preciseMatched,
-                shown.preciseTolerance, shown.chance, chanceProbability(shown), shownSearch.evaluated,
+                shown.preciseTolerance, shown.chance, chanceProbability(shown),
+                chanceProbability(shown) * Math.max(1, shownSearch.evaluated), shownSearch.evaluated,
                 MAX_FALSE_ALARM, where(inside, anywhere))
                 + String.format(Locale.ROOT, "; the pairs scatter about its polynomial with a robust reduced "
                         + "chi-square of %.3g (at most %.3g accepted)", shownRefined.robustChiSquare(),
