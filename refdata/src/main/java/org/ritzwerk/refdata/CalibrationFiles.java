@@ -46,7 +46,9 @@ import tools.jackson.databind.node.ObjectNode;
  * solution's members (medium, pixels, valid_pixels, centre_pixel, half_range, coefficients_nm,
  * covariance_nm2) are required; the record of how it was made (description, rms_nm, rms_pixels,
  * reduced_chi_square, lines, saturated_lines) may be absent or null (a hand-written file of
- * stored coefficients), and is checked when present. The members that follow from the others
+ * stored coefficients), and is checked when present: each line's residual_nm must be its
+ * wavelength minus the solution at its pixel (to 1e-6 nm), so a file whose coefficients were
+ * changed after the fit is refused. The members that follow from the others
  * (power_coefficients_nm, degree, lines_used, lines_rejected) are written for the reader's
  * convenience and not read back. A record written by {@link #toJson(CalibrationRecord)} reads
  * back equal ({@link #readRecord}). Reading also checks the polynomial across the whole detector
@@ -320,6 +322,16 @@ public final class CalibrationFiles {
                                 : text(source, line, "flag", where)));
             } catch (IllegalArgumentException e) {
                 throw invalid(source, where + ": " + e.getMessage());
+            }
+            // The record must agree with its own coefficients: reference minus solution is the residual.
+            CalibrationRecord.FittedLine added = lines.get(lines.size() - 1);
+            double fitted = DispersionSolution.of(polynomial).wavelengthAt(added.pixel());
+            double expected = added.wavelengthNm() - fitted;
+            if (!(Math.abs(added.residualNm() - expected) <= Math.max(1e-6, 1e-9 * Math.abs(added.wavelengthNm())))) {
+                throw invalid(source, String.format(java.util.Locale.ROOT, "%s: residual_nm is %s, but the coefficients"
+                        + " give %.6f nm at pixel %s, a residual of %.6f nm: the file contradicts itself (its"
+                        + " coefficients were changed, or its lines belong to another solution)", where,
+                        added.residualNm(), fitted, added.pixel(), expected));
             }
         }
         List<CalibrationRecord.SaturatedLine> saturated = new ArrayList<>();

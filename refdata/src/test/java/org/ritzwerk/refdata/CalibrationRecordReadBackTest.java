@@ -97,8 +97,15 @@ class CalibrationRecordReadBackTest {
         }
         List<CalibrationRecord.FittedLine> lines = new ArrayList<>();
         int n = r.nextInt(25);
+        // Lines agree with the coefficients (the reader checks that residual_nm is the wavelength
+        // minus the solution at the pixel); the other members are arbitrary.
+        org.ritzwerk.engine.calibrate.DispersionSolution solution =
+                org.ritzwerk.engine.calibrate.DispersionSolution.of(polynomial);
         for (int i = 0; i < n; i++) {
-            lines.add(new CalibrationRecord.FittedLine(anyDouble(r), anyDouble(r), anyPositiveOrNaN(r), anyDouble(r),
+            double pixel = r.nextDouble() * pixels;
+            double fitted = solution.wavelengthAt(pixel);
+            double wavelength = fitted + (r.nextDouble() - 0.5) * 1e-2;
+            lines.add(new CalibrationRecord.FittedLine(pixel, wavelength, anyPositiveOrNaN(r), wavelength - fitted,
                     anyDouble(r), r.nextInt(5) != 0, anyText(r, 0, 30), r.nextInt(4) == 0 ? anyText(r, 0, 10) : ""));
         }
         List<CalibrationRecord.SaturatedLine> saturated = new ArrayList<>();
@@ -108,6 +115,24 @@ class CalibrationRecordReadBackTest {
         }
         return new CalibrationRecord(anyText(r, 0, 60), pixels, polynomial, anyPositiveOrNaN(r), anyPositiveOrNaN(r),
                 anyPositiveOrNaN(r), lines, saturated);
+    }
+
+    /** A record whose coefficients were changed after the fit contradicts its own lines and is refused. */
+    @Test
+    void aRecordWhoseCoefficientsWereChangedIsRefused() {
+        CalibrationRecord record = null;
+        for (long seed = 1; record == null || record.lines().isEmpty(); seed++) {
+            record = anyRecord(new SplittableRandom(seed), 2048);
+        }
+        String text = CalibrationFiles.toJson(record);
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("\"coefficients_nm\"\\s*:\\s*\\[\\s*([^,\\]\\s]+)")
+                .matcher(text);
+        assertTrue(m.find(), text);
+        String edited = text.substring(0, m.start(1)) + (Double.parseDouble(m.group(1)) + 1.0)
+                + text.substring(m.end(1));
+        DataFileException e = org.junit.jupiter.api.Assertions.assertThrows(DataFileException.class,
+                () -> CalibrationFiles.parseRecord("edited.json", edited));
+        assertTrue(e.getMessage().contains("the file contradicts itself"), e.getMessage());
     }
 
     @Test
