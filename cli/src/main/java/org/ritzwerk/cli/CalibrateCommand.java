@@ -405,7 +405,8 @@ final class CalibrateCommand implements Callable<Integer> {
         int n = spectrum.pixels();
         w.printf(Locale.ROOT, "Spectrum: %s, %d pixels; lamp: %s%n", spectrum.source(), n,
                 String.join(", ", calibration.problem().lamp().setIds()));
-        w.printf(Locale.ROOT, "Peaks found: %d above S/N %.3g (noise scale %.3g counts)%n", calibration.peaks().size(),
+        w.printf(Locale.ROOT, "Peaks found: %d above S/N %.3g (pixel variance %.3g times the Poisson model's)%n",
+                calibration.peaks().size(),
                 calibration.settings().threshold(), calibration.peaks().noiseScale());
         int images = calibration.firstMatch().secondOrderPeaks().length;
         w.printf(Locale.ROOT, "Paired with lamp lines: %d of the %d strongest peaks matched (%.0f %%)%s%n",
