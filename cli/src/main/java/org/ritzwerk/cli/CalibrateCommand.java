@@ -468,8 +468,10 @@ final class CalibrateCommand implements Callable<Integer> {
         w.println();
         w.printf(Locale.ROOT, "%10s %14s %12s %12s%n", "pixel", "wavelength nm", "+- nm", "nm/pixel");
         for (double p : new double[] {0, (n - 1) / 4.0, (n - 1) / 2.0, 3 * (n - 1) / 4.0, n - 1}) {
-            w.printf(Locale.ROOT, "%10.1f %14.5f %12.2g %12.6f%n", p, solution.wavelengthAt(p),
-                    solution.wavelengthSigmaAt(p), solution.dispersionAt(p));
+            // Beyond the fitted lines the polynomial is extrapolated: its uncertainty there is a model's.
+            boolean outside = p < calibration.lowestUsedPixel() || p > calibration.highestUsedPixel();
+            w.printf(Locale.ROOT, "%10.1f %14.5f %12.2g %12.6f%s%n", p, solution.wavelengthAt(p),
+                    solution.wavelengthSigmaAt(p), solution.dispersionAt(p), outside ? "  extrapolated" : "");
         }
         int saturated = calibration.saturatedPeaks();
         if (saturated > 0) {
