@@ -35,6 +35,12 @@ final class LineSets {
             if (ReferenceDataException.WRONG_KIND.equals(e.code())) {
                 throw new OptionException(option + " " + e.getMessage(), e);
             }
+            // A name that looks like a file (a path or an extension) is most likely a missing file.
+            if (ReferenceDataException.UNKNOWN_DATA_SET.equals(e.code())
+                    && (set.contains("/") || set.contains("\\") || set.matches(".*\\.(csv|json|txt)"))) {
+                throw new OptionException(option + " " + set + ": no such file (nor a data set of that name;"
+                        + " 'ritzwerk data' lists the sets)", e);
+            }
             throw e;
         }
     }

@@ -456,6 +456,9 @@ class SynthCommandTest {
         assertTrue(CliTest.run("synth", "--lines", "lamp-ne-i", "--from", "600 nm", "--to", "700 nm",
                 "--temperature", "400", "--components").err().contains("--components has no effect without a"
                         + " one-electron ion in --species"));
+        // A --lines name that looks like a file is reported as a missing file, not an unknown data set.
+        assertTrue(CliTest.run("synth", "--lines", "nosuch.csv", "--from", "600 nm", "--to", "700 nm",
+                "--temperature", "400").err().contains("--lines nosuch.csv: no such file"));
     }
 
     /** Noise from the default seed is noted: spectra made in bulk without --seed would share it. */
