@@ -35,10 +35,22 @@ public final class Identification {
     private final Tolerance tolerance;
     private final double strengthWeight;
     private final Identifier.IntensityTerm intensityTerm;
+    /**
+     * The wavelength span (metres, at the peaks' middle) over which a shift search moved the
+     * lines before this identification kept the best shift; 0 without a search.
+     */
+    private final double searchSpan;
 
     Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
             int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
             Identifier.IntensityTerm intensityTerm) {
+        this(peaks, lines, linePlusOne, used, greedyComponents, strongLine, tolerance, strengthWeight, intensityTerm,
+                0);
+    }
+
+    private Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
+            int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
+            Identifier.IntensityTerm intensityTerm, double searchSpan) {
         this.peaks = peaks;
         this.lines = lines;
         this.linePlusOne = linePlusOne;
@@ -48,6 +60,19 @@ public final class Identification {
         this.tolerance = tolerance;
         this.strengthWeight = strengthWeight;
         this.intensityTerm = intensityTerm;
+        this.searchSpan = searchSpan;
+    }
+
+    /**
+     * @param span the wavelength span in metres, at the peaks' middle, over which a velocity or
+     *             offset search moved the lines before keeping the best shift (both searches'
+     *             spans added)
+     * @return this identification with its chance figures taken over that search (see
+     *         {@link #speciesPresence})
+     */
+    Identification searchedOver(double span) {
+        return new Identification(peaks, lines, linePlusOne, used, greedyComponents, strongLine, tolerance,
+                strengthWeight, intensityTerm, span);
     }
 
     /**
@@ -301,6 +326,12 @@ public final class Identification {
      * correction 1 - Phi((k - 1/2 - mu) / sqrt(v)) (Lyapunov's central limit theorem; common
      * practice).
      *
+     * <p><b>After a shift search.</b> When a velocity or offset search moved the lines over a span
+     * W (at the peaks' middle) and kept the best shift, chance had about T = W / (2 h) independent
+     * tries (h the tolerance's half-width there), so {@code chanceProbability} is
+     * 1 - (1 - P)^T of the single-position P (look-elsewhere; common practice) and presence is 0
+     * when that exceeds 0.01. The expected chance counts stay those of one position.
+     *
      * <p><b>Presence.</b> Of n strong lines, a species that truly shows a share f of them is
      * expected to match k = n f + (n - n f) p of them, p the chance rate, so
      * f = (k - mu) / (n - mu) (method of moments, derived here; the same form as the chance
@@ -333,6 +364,10 @@ public final class Identification {
         double typicalSigma = sigmas[sigmas.length / 2];
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
+        // Independent shifts a search tried: its span over the tolerance window at the middle.
+        double middle = sorted[sorted.length / 2];
+        double trials = searchSpan > 0
+                ? Math.max(1, searchSpan / (2 * tolerance.halfWidth(middle, typicalSigma, 0))) : 1;
         for (int j = 0; j < lines.size(); j++) {
             int s = lines.speciesIndex(j);
             matched[s] += used[j] ? 1 : 0;
@@ -362,6 +397,11 @@ public final class Identification {
             int k = strongMatched[s];
             double mu = strongByChance[s];
             double chance = n == 0 ? Double.NaN : chanceProbability(strongRates[s], n, k, mu, strongVariance[s]);
+            // After a shift search the best of about `trials` independent shifts was kept: the
+            // chance that some shift gives k or more is 1 - (1 - P)^trials (look-elsewhere).
+            if (trials > 1 && !Double.isNaN(chance)) {
+                chance = -Math.expm1(trials * Math.log1p(-Math.min(chance, 1)));
+            }
             double share = Double.NaN;
             if (n > 0) {
                 // Counts that chance gives more often than 1 % of the time show nothing: 0, whatever the

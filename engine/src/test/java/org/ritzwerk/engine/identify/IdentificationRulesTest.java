@@ -104,6 +104,59 @@ class IdentificationRulesTest {
     }
 
     /**
+     * The look-elsewhere rule itself: an identification kept from a search over a span W has the
+     * chance probability 1 - (1 - P)^T of the single-position P, T = W / (2 h) the shifts tried at
+     * the tolerance's half-width h (5 sigma = 0.05 nm here, so T = 100 for W = 10 nm; common
+     * practice), and no presence where that exceeds 0.01.
+     */
+    @Test
+    void aSearchTakesTheChanceProbabilityOverTheShiftsItTried() {
+        LineCatalog lines = offered(9L);
+        int checked = 0;
+        for (long seed = 1; seed <= 50; seed++) {
+            Identification single = Identifier.of(Tolerance.kSigma(5)).identify(randomPeaks(60, 1e-11, seed), lines);
+            List<Identification.SpeciesPresence> before = single.speciesPresence();
+            List<Identification.SpeciesPresence> after = single.searchedOver(10e-9).speciesPresence();
+            for (int k = 0; k < before.size(); k++) {
+                double p = before.get(k).chanceProbability();
+                if (Double.isNaN(p)) {
+                    continue;
+                }
+                checked++;
+                assertEquals(1 - Math.pow(1 - p, 100), after.get(k).chanceProbability(), 1e-9);
+                if (after.get(k).chanceProbability() > 0.01) {
+                    assertEquals(0, after.get(k).presence(), 0);
+                }
+            }
+        }
+        assertTrue(checked > 100, "species judged " + checked);
+    }
+
+    /**
+     * The short random lists with a velocity search of +-3000 km/s: the search keeps the best of
+     * many shifts, and presence stays as rare as without a search.
+     */
+    @Test
+    void aShiftSearchDoesNotTurnChanceIntoPresence() {
+        LineCatalog lines = offered(9L);
+        IdentificationSearch search = IdentificationSearch.of(Identifier.of(Tolerance.kSigma(5)))
+                .withVelocitySearch(3000e3);
+        int judged = 0;
+        int present = 0;
+        for (long seed = 1; seed <= 200; seed++) {
+            Identification result = search.run(randomPeaks(60, 1e-11, 1000 + seed), lines).identification();
+            for (Identification.SpeciesPresence p : result.speciesPresence()) {
+                if (p.strongInRange() > 0) {
+                    judged++;
+                    present += p.presence() > 0 ? 1 : 0;
+                }
+            }
+        }
+        assertTrue(judged > 700, "judgements " + judged);
+        assertTrue(present <= 0.015 * judged, present + " of " + judged + " judgements show presence");
+    }
+
+    /**
      * A synthetic real scene (H I and He II lines of at least 0.1 % of their strongest g A, 1 pm
      * noise, 10 % spurious peaks): both species present with presence at least 0.9 and a chance
      * probability below 1 % (He II has a single strong line in range); C VI and the invented sets, offered but absent, stay low.
