@@ -186,7 +186,10 @@ public final class Schemas {
      * {@code peaks_found}, {@code strong_peaks}, {@code strong_matched},
      * {@code matched_fraction}, {@code coverage} (fraction of the detector between the outermost
      * lines used), {@code saturated_peaks}, {@code lines} (the pairs' labels, in the solution's
-     * order), {@code description}; {@code failure_code} and {@code failure} when the job refused
+     * order), {@code description}, {@code end_check_low_pixels} and {@code end_check_high_pixels}
+     * (how well the other fitted lines predict each outermost line's pixel, the engine's
+     * {@code Calibration.endConfirmationPixels}; null when too few lines remain for the degree);
+     * {@code failure_code} and {@code failure} when the job refused
      * the exposure (every other column but id and pixels then null).
      */
     public static final StructType CALIBRATIONS = struct(
@@ -213,6 +216,8 @@ public final class Schemas {
             optional("saturated_peaks", DataTypes.IntegerType),
             optional("lines", STRINGS),
             optional("description", DataTypes.StringType),
+            optional("end_check_low_pixels", DataTypes.DoubleType),
+            optional("end_check_high_pixels", DataTypes.DoubleType),
             optional("failure_code", DataTypes.StringType),
             optional("failure", DataTypes.StringType));
 

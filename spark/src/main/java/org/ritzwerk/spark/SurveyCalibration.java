@@ -164,7 +164,7 @@ public final class SurveyCalibration {
                         .prior(prior).source(id).build());
             } catch (RitzwerkException e) {
                 return Catalyst.row(Catalyst.utf8(id), pixels, null, null, null, null, null, null, null, null, null,
-                        null, null, null, null, null, null, null, null, null, null, null, null,
+                        null, null, null, null, null, null, null, null, null, null, null, null, null, null,
                         Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()));
             }
             DispersionSolution solution = calibration.solution();
@@ -190,7 +190,8 @@ public final class SurveyCalibration {
                     solution.usedCount(), solution.rejectedCount(), calibration.peaks().size(),
                     calibration.strongPeaks(), calibration.strongMatched(), finite(calibration.matchedFraction()),
                     finite(calibration.coverage()), calibration.saturatedPeaks(), Catalyst.array(lines),
-                    Catalyst.utf8(calibration.description()), null, null);
+                    Catalyst.utf8(calibration.description()), finite(calibration.endConfirmationPixels(false)),
+                    finite(calibration.endConfirmationPixels(true)), null, null);
         }
 
         private static Double finite(double value) {

@@ -101,6 +101,8 @@ class SurveyCalibrationTest {
             assertEquals(c.saturatedPeaks(), row.getInt(20));
             assertEquals(c.pairLabels(), row.getList(21));
             assertEquals(c.description(), row.getString(22));
+            assertEquals(c.endConfirmationPixels(false), row.isNullAt(23) ? Double.NaN : row.getDouble(23));
+            assertEquals(c.endConfirmationPixels(true), row.isNullAt(24) ? Double.NaN : row.getDouble(24));
             // The saved-file path of the README: write, read, apply.
             Path file = folder.resolve(id + ".json");
             CalibrationFiles.write(file, s, counts.length, c.description(), c.pairLabels());
