@@ -36,21 +36,23 @@ public final class Identification {
     private final double strengthWeight;
     private final Identifier.IntensityTerm intensityTerm;
     /**
-     * The wavelength span (metres, at the peaks' middle) over which a shift search moved the
-     * lines before this identification kept the best shift; 0 without a search.
+     * The span over which a shift search moved the lines before this identification kept the
+     * best shift: a relative part (2 v / c, times the wavelength) and an absolute part in metres
+     * (twice the offset searched); both 0 without a search.
      */
+    private final double searchRelativeSpan;
     private final double searchSpan;
 
     Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
             int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
             Identifier.IntensityTerm intensityTerm) {
         this(peaks, lines, linePlusOne, used, greedyComponents, strongLine, tolerance, strengthWeight, intensityTerm,
-                0);
+                0, 0);
     }
 
     private Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
             int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
-            Identifier.IntensityTerm intensityTerm, double searchSpan) {
+            Identifier.IntensityTerm intensityTerm, double searchRelativeSpan, double searchSpan) {
         this.peaks = peaks;
         this.lines = lines;
         this.linePlusOne = linePlusOne;
@@ -60,19 +62,21 @@ public final class Identification {
         this.tolerance = tolerance;
         this.strengthWeight = strengthWeight;
         this.intensityTerm = intensityTerm;
+        this.searchRelativeSpan = searchRelativeSpan;
         this.searchSpan = searchSpan;
     }
 
     /**
-     * @param span the wavelength span in metres, at the peaks' middle, over which a velocity or
-     *             offset search moved the lines before keeping the best shift (both searches'
-     *             spans added)
+     * @param relativeSpan the span a velocity search moved the lines over, relative to their
+     *                     wavelength (2 v / c; 0 without one)
+     * @param span         the span an offset search moved them over, metres (twice the offset;
+     *                     0 without one)
      * @return this identification with its chance figures taken over that search (see
-     *         {@link #speciesPresence})
+     *         {@link #speciesPresence}), the relative span taken at the peaks' middle
      */
-    Identification searchedOver(double span) {
+    Identification searchedOver(double relativeSpan, double span) {
         return new Identification(peaks, lines, linePlusOne, used, greedyComponents, strongLine, tolerance,
-                strengthWeight, intensityTerm, span);
+                strengthWeight, intensityTerm, relativeSpan, span);
     }
 
     /**
@@ -366,8 +370,9 @@ public final class Identification {
         double hi = sorted[sorted.length - 1];
         // Independent shifts a search tried: its span over the tolerance window at the middle.
         double middle = sorted[sorted.length / 2];
-        double trials = searchSpan > 0
-                ? Math.max(1, searchSpan / (2 * tolerance.halfWidth(middle, typicalSigma, 0))) : 1;
+        double searched = searchRelativeSpan * middle + searchSpan;
+        double trials = searched > 0
+                ? Math.max(1, searched / (2 * tolerance.halfWidth(middle, typicalSigma, 0))) : 1;
         for (int j = 0; j < lines.size(); j++) {
             int s = lines.speciesIndex(j);
             matched[s] += used[j] ? 1 : 0;

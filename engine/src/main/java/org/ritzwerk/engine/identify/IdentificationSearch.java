@@ -105,28 +105,13 @@ public final class IdentificationSearch {
             used = offset.matches() == 0 ? used : used.offset(offset.value());
         }
         Identification identification = identifier.identify(peaks, used);
-        double span = searchSpan(peaks);
-        if (span > 0) {
-            identification = identification.searchedOver(span);
+        if (velocity != null || offset != null) {
+            // The spans searched, for the chance figures (the identification knows the peaks' middle).
+            identification = identification.searchedOver(
+                    velocity == null ? 0 : 2 * maxSpeed / org.ritzwerk.constants.PhysicalConstants.C,
+                    offset == null ? 0 : 2 * maxOffset);
         }
         return new Report(identification, used, Optional.ofNullable(velocity), Optional.ofNullable(offset));
-    }
-
-    /**
-     * @return the wavelength span, metres at the peaks' middle, that the velocity and offset
-     *         searches moved the lines over (2 lambda v / c and 2 offset); 0 without a search
-     */
-    private double searchSpan(PeakList peaks) {
-        double span = 0;
-        if (!Double.isNaN(maxSpeed)) {
-            double[] sorted = peaks.wavelengths().clone();
-            java.util.Arrays.sort(sorted);
-            span += 2 * sorted[sorted.length / 2] * maxSpeed / org.ritzwerk.constants.PhysicalConstants.C;
-        }
-        if (!Double.isNaN(maxOffset)) {
-            span += 2 * maxOffset;
-        }
-        return span;
     }
 
     /**
