@@ -814,16 +814,32 @@ public final class Scene {
          * @return the work units; 0 without one-electron ions
          */
         public double ionLineWorkUnits() {
-            double reach = reach();
-            double doppler = doppler();
-            double loNm = Math.max(grid.lowest() - reach, grid.lowest() / 2);
-            double hiNm = grid.highest() + reach;
+            double[] hertz = ionRestHertz(ionWindowNm(), doppler());
             double units = 0;
             for (HydrogenLikeEmitter ion : ions) {
-                units += HydrogenLikeLines.of(ion.model()).workUnits(nMax, PhysicalConstants.C * doppler
-                        / (hiNm * 1.001e-9), PhysicalConstants.C * doppler / (loNm * 1e-9), components);
+                units += HydrogenLikeLines.of(ion.model()).workUnits(nMax, hertz[0], hertz[1], components);
             }
             return units;
+        }
+
+        /**
+         * @return the axis window, nm, whose one-electron lines the build draws: the grid widened by
+         *         {@link #reach()} (below, at most to half its lowest edge)
+         */
+        private double[] ionWindowNm() {
+            double reach = reach();
+            return new double[] {Math.max(grid.lowest() - reach, grid.lowest() / 2), grid.highest() + reach};
+        }
+
+        /**
+         * @param windowNm the axis window, nm
+         * @param doppler  the Doppler factor of the scene's velocity
+         * @return the rest frequencies, Hz, whose lines can land in it: {lowest, highest} (air
+         *         wavelengths are shorter than vacuum ones by less than 0.1 %: a safe search range)
+         */
+        private static double[] ionRestHertz(double[] windowNm, double doppler) {
+            return new double[] {PhysicalConstants.C / (windowNm[1] * 1.001e-9 / doppler),
+                PhysicalConstants.C / (windowNm[0] * 1e-9 / doppler)};
         }
 
         private Lines lines(List<String> notes) {
@@ -849,7 +865,7 @@ public final class Scene {
             }
             Collected out = new Collected(lo, hi);
             for (HydrogenLikeEmitter ion : ions) {
-                addIon(ion, out, doppler, Math.max(lo - reach, lo / 2), hi + reach, stark, notes);
+                addIon(ion, out, doppler, ionWindowNm(), stark, notes);
             }
             for (ListEmitter list : resolvedLists(notes)) {
                 out.reserve(list.vacuumNm.length);
@@ -1139,20 +1155,19 @@ public final class Scene {
             }
         }
 
-        private void addIon(HydrogenLikeEmitter ion, Collected out, double doppler, double loNm, double hiNm,
+        private void addIon(HydrogenLikeEmitter ion, Collected out, double doppler, double[] windowNm,
                 boolean stark, List<String> notes) {
+            double loNm = windowNm[0];
+            double hiNm = windowNm[1];
             HydrogenLikeModel model = ion.model;
             double kT = PhysicalConstants.K * temperature;
             double ground = model.energy(1, 0, 1);
             double partition = IonisationBalance.hydrogenLikePartition(model, temperature, nMax);
             double number = ion.abundance * stageFraction(ion, notes);
-            // Air wavelengths are shorter than vacuum ones by less than 0.1 %: a safe search range.
-            double vacuumLo = loNm * 1e-9 / doppler;
-            double vacuumHi = hiNm * 1.001e-9 / doppler;
+            double[] hertz = ionRestHertz(windowNm, doppler);
             HydrogenLikeLines source = HydrogenLikeLines.of(model);
-            LineTable table = components
-                    ? source.components(nMax, PhysicalConstants.C / vacuumHi, PhysicalConstants.C / vacuumLo)
-                    : source.multiplets(nMax, PhysicalConstants.C / vacuumHi, PhysicalConstants.C / vacuumLo);
+            LineTable table = components ? source.components(nMax, hertz[0], hertz[1])
+                    : source.multiplets(nMax, hertz[0], hertz[1]);
             double mass = model.nucleus().massKg() + PhysicalConstants.ELECTRON_MASS.value();
             double[] shellRate = natural ? new double[nMax + 1] : null;
             for (int i = 0; i < table.size(); i++) {
