@@ -431,8 +431,8 @@ final class CalibrateCommand implements Callable<Integer> {
                 confirmation(calibration.endConfirmationPixels(false)), calibration.endConfirmationAtPixel(false),
                 confirmation(calibration.endConfirmationPixels(true)), calibration.endConfirmationAtPixel(true));
         for (boolean high : new boolean[] {false, true}) {
-            double check = calibration.endConfirmationPixels(high);
-            if (!(check <= Math.max(0.1, 6 * calibration.largestSigmaPixels()))) {
+            if (calibration.restsOnItsEndLine(high)) {
+                double check = calibration.endConfirmationPixels(high);
                 spec.commandLine().getErr().printf(Locale.ROOT, "note: the outermost line at pixel %.1f is checked by"
                         + " the other lines %s; near it the solution rests on that one pairing (its stated"
                         + " uncertainty assumes the pairing is right; --required-precision refuses such solutions)%n",

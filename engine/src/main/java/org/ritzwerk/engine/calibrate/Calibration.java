@@ -61,6 +61,17 @@ public final class Calibration {
 
     /**
      * @param high the end at the highest pixel, else the lowest
+     * @return whether near that end the solution rests on its one outermost pairing: the other
+     *         lines check it ({@link #endConfirmationPixels}) only beyond 0.1 pixel and six times
+     *         the largest stated uncertainty, or not at all, so the stated uncertainty there holds
+     *         only if that pairing is right
+     */
+    public boolean restsOnItsEndLine(boolean high) {
+        return !(endConfirmationPixels(high) <= Math.max(0.1, 6 * largestSigmaPixels()));
+    }
+
+    /**
+     * @param high the end at the highest pixel, else the lowest
      * @return the pixel of the outermost used pair at that end
      */
     public double endConfirmationAtPixel(boolean high) {

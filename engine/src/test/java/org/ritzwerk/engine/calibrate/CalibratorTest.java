@@ -107,6 +107,7 @@ class CalibratorTest {
         CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(lamp).source("ends").build();
         Calibration accepted = Calibrator.defaults().calibrate(problem);
         double low = accepted.endConfirmationPixels(false);
+        assertTrue(accepted.restsOnItsEndLine(false));
         assertTrue(low > 0.3 && low > 6 * accepted.largestSigmaPixels(), "end check " + low + " against stated "
                 + accepted.largestSigmaPixels() + " from pixel " + accepted.lowestUsedPixel());
         CalibrationException refused = assertThrows(CalibrationException.class,
