@@ -403,8 +403,8 @@ public final class SyntheticSpectrumFiles {
                 throw fail(source, where + ": " + e.getMessage());
             }
         }
-        SpectrumLineFiles.SpectrumLines lines = new SpectrumLineFiles.SpectrumLines(source, medium, nm, counts, inPixels,
-                doppler, lorentz, List.copyOf(labels), new int[n]);
+        SpectrumLineFiles.SpectrumLines lines = new SpectrumLineFiles.SpectrumLines(source, medium, nm, counts,
+                inPixels, doppler, lorentz, List.copyOf(labels), new int[n]);
         return new Document(source, medium, grid, Collections.unmodifiableMap(scene), List.copyOf(notes), edges,
                 pixels.wavelengths(), pixels.expectedCounts(), pixels.counts(), lines);
     }

@@ -151,7 +151,8 @@ public class SparkThroughputBenchmark {
         search = IdentificationSearch.of(Identifier.of(Tolerance.parse("5 sigma")));
         identification = SurveyIdentification.of(IdentificationParameters.inWindow(species, List.of(), 360, 710));
         pool = Executors.newFixedThreadPool(cores);
-        synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 2000).withMedium("air").withModel("qed", 30));
+        synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 2000).withMedium("air")
+                .withModel("qed", 30));
     }
 
     /** The process's CPU time at the start of the pass, ns. */

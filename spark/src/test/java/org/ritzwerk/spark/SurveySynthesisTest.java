@@ -31,8 +31,8 @@ import org.ritzwerk.refdata.DataLines;
  */
 class SurveySynthesisTest {
 
-    private static final SynthesisParameters GRID = SynthesisParameters.linear(640, 670, 1500).withMedium("air").withModel("qed", 12)
-            .withCounts(5000, 3);
+    private static final SynthesisParameters GRID = SynthesisParameters.linear(640, 670, 1500).withMedium("air")
+            .withModel("qed", 12).withCounts(5000, 3);
 
     /** The library as the synth command composes one scene (ions, then alkali atoms, then level lists). */
     private static SyntheticSpectrum library(DataContext data, String[] species, double[] abundances, double kelvin,

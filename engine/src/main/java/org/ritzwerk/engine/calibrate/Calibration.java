@@ -22,7 +22,7 @@ public final class Calibration {
     private final List<String> pairLabels;
     /** {@link #largestSigmaPixels()} and the pixel where it is reached, computed once. */
     private final double[] largestSigma;
-    /** {lowest end's confirmation, its pixel, highest end's confirmation, its pixel}; see {@link #endConfirmationPixels}. */
+    /** {low end's check, its pixel, high end's check, its pixel}; see {@link #endConfirmationPixels}. */
     private final double[] endConfirmation;
 
     Calibration(CalibrationProblem problem, Calibrator settings, Peaks peaks, LampMatch firstMatch, LampMatch match,

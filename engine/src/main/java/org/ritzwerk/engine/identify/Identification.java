@@ -345,8 +345,8 @@ public final class Identification {
      * not positive (chance alone explains every strong line) or when chance gives k or more
      * matches more often than 1 % of the time ({@code chanceProbability} above 0.01: the normal
      * bound alone gave random peaks presence 0.2 where chance expects 0.03 matches and one came).
-     * Random peaks thus give presence 0 in at least 99 % of cases whatever their density; a species whose strong lines are all found
-     * among sparse peaks gets nearly 1. Limits: the chance model treats peaks as a Poisson
+     * Random peaks thus give presence 0 in at least 99 % of cases whatever their density; a
+     * species whose strong lines are all found among sparse peaks gets nearly 1. Limits: the chance model treats peaks as a Poisson
      * process of the local density and lines as independent; with few strong lines in range
      * the bound is loose (one strong line found where chance expects 0.01 or 0.001 gives 0.77
      * or 0.93).

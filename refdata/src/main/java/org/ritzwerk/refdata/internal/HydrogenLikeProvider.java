@@ -29,8 +29,8 @@ import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * Computed data sets: the levels and lines (n &lt;= 10, QED tier; Dirac above Z = 30) of the
- * one-electron ion of every isotope in the built-in nuclear data that the engine can model, e.g. {@code computed-he-ii-levels}
- * and {@code computed-he-ii-lines}. Lines are vacuum wavelengths in nm with Einstein A. Computed
+ * one-electron ion of every isotope in the built-in nuclear data that the engine can model,
+ * e.g. {@code computed-he-ii-levels} and {@code computed-he-ii-lines}. Lines are vacuum wavelengths in nm with Einstein A. Computed
  * when loaded. Thread-safe.
  *
  * <p>Found by ServiceLoader, it computes from the built-in nuclear data; {@link #HydrogenLikeProvider(NuclearData)}
