@@ -65,8 +65,8 @@ class DataRegistryTest {
         DataRegistry registry = DataRegistry.builtIn();
         List<String> ids = registry.list().stream().map(l -> l.info().id()).collect(Collectors.toList());
         assertTrue(ids.containsAll(List.of("nuclear-isotopes", "lamp-hg-i", "lamp-ne-i", "lamp-ar-i", "lamp-kr-i",
-                "lamp-xe-i", "computed-h-i-lines", "computed-d-i-levels", "computed-he-ii-lines", "quantum-defects-rb-87",
-                "levels-cs-133")), ids.toString());
+                "lamp-xe-i", "lamp-cd-i", "lamp-zn-i", "computed-h-i-lines", "computed-d-i-levels",
+                "computed-he-ii-lines", "quantum-defects-rb-87", "levels-cs-133")), ids.toString());
         registry.list().forEach(l -> {
             assertEquals(Origin.BUILT_IN, l.origin());
             assertTrue(!l.info().provenance().detail().isBlank());

@@ -18,7 +18,7 @@ import org.ritzwerk.refdata.LineListFiles;
 import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
- * Built-in calibration-lamp line sets in air (Hg I, Ne I, Ar I, Kr I, Xe I) with the wavelengths
+ * Built-in calibration-lamp line sets in air (Hg I, Ne I, Ar I, Kr I, Xe I, Cd I, Zn I) with the wavelengths
  * and intensities of the strong-lines tables of the NIST Handbook of Basic Atomic Spectroscopic
  * Data (Sansonetti &amp; Martin 2005), marked from memory, each row carrying the independent check
  * it passed (see {@code lamps/README.md}); stored in the project's own line-list format under
@@ -27,8 +27,8 @@ import org.ritzwerk.refdata.ReferenceDataException;
  */
 public final class LampProvider implements ReferenceDataProvider {
 
-    private static final List<String> FILES =
-            List.of("lamp-hg-i", "lamp-ne-i", "lamp-ar-i", "lamp-kr-i", "lamp-xe-i");
+    private static final List<String> FILES = List.of("lamp-hg-i", "lamp-ne-i", "lamp-ar-i", "lamp-kr-i", "lamp-xe-i",
+            "lamp-cd-i", "lamp-zn-i");
 
     @Override
     public String id() {

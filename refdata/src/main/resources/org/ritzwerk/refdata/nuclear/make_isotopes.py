@@ -57,8 +57,9 @@ QUOTED_REF = "a public tabular extract of the IAEA LiveChart of Nuclides"
 # Isotopes taken from bodr 10 alone (mass, its uncertainty and spin; no moment, no radius):
 # Hg-202, the most abundant mercury isotope, so that the built-in Hg I lamp set can be
 # synthesised (Doppler widths need the mass); Sr-88, the most abundant strontium isotope, whose
-# reduced-mass Rydberg constant the built-in Sr I Rydberg levels (levels/levels-sr-i.csv) use.
-BODR_ONLY = [(38, 88), (80, 202)]
+# reduced-mass Rydberg constant the built-in Sr I Rydberg levels (levels/levels-sr-i.csv) use;
+# Cd-114, the most abundant cadmium isotope, for the built-in Cd I lamp set.
+BODR_ONLY = [(38, 88), (48, 114), (80, 202)]
 
 # ---------------------------------------------------------------------------
 # Quoted values.  One line per isotope:
@@ -374,7 +375,7 @@ def header_lines(versions, rows):
     return f"""\
 # id: nuclear-isotopes
 # title: Nuclear masses, spins, moments and charge radii of {len(rows)} isotopes
-# source: M. Wang et al., Chin. Phys. C 45, 030003 (2021) (AME2020 masses); N. J. Stone, INDC(NDS)-0794 (2019) and CODATA 2018 (moments); I. Angeli and K. P. Marinova, At. Data Nucl. Data Tables 99, 69 (2013) and CODATA 2018 (radii); Blue Obelisk Data Repository 10, Debian package bodr {versions['bodr']} (spins, and the masses of Sr-88 and Hg-202: source key bodr10); the file's source keys say which applies to each value
+# source: M. Wang et al., Chin. Phys. C 45, 030003 (2021) (AME2020 masses); N. J. Stone, INDC(NDS)-0794 (2019) and CODATA 2018 (moments); I. Angeli and K. P. Marinova, At. Data Nucl. Data Tables 99, 69 (2013) and CODATA 2018 (radii); Blue Obelisk Data Repository 10, Debian package bodr {versions['bodr']} (spins, and the masses of Sr-88, Cd-114 and Hg-202: source key bodr10); the file's source keys say which applies to each value
 # provenance: published
 # version: 2021 (AME2020; moments 2019; radii 2013; CODATA 2018; bodr 10)
 # Ritzwerk nuclear reference data: one row per isotope.
