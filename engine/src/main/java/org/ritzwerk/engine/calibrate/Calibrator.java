@@ -2,6 +2,7 @@ package org.ritzwerk.engine.calibrate;
 
 import java.util.Locale;
 import java.util.Objects;
+import org.apache.commons.numbers.gamma.RegularizedGamma;
 import org.ritzwerk.data.CalibrationRecord;
 
 /**
@@ -405,6 +406,7 @@ public final class Calibrator {
             }
         }
         double chi2 = solution.reducedChiSquare();
+        checkFitWhereTheDegreeIsCapped(problem.source(), solution);
         if (chi2 > maxChi2) {
             String cause = degree > 0
                     ? String.format(Locale.ROOT, "the pairs disagree with the fixed degree-%d polynomial by far more "
@@ -418,6 +420,43 @@ public final class Calibrator {
                             + "accepted %.3g: %s; raise the accepted limit (a library setting) only if the centroid "
                             + "uncertainties are known to be too small",
                     problem.source(), chi2, solution.usedCount(), solution.rmsPixels(), maxChi2, cause));
+        }
+    }
+
+    /**
+     * Below this chance probability of a chi-square as large as the fit's, for pairs that follow
+     * the polynomial with their stated uncertainties, a fit whose degree the pair count capped is
+     * refused ({@link #checkFitWhereTheDegreeIsCapped}).
+     */
+    static final double LACK_OF_FIT_PROBABILITY = 1e-3;
+
+    /**
+     * When the degree is chosen automatically but too few pairs remain to try the next one (AICc
+     * needs d + 4 pairs for degree d + 1), nothing can show that the chosen polynomial is too
+     * simple but its chi-square. A straight line through four pairs of a curved dispersion was
+     * accepted with a reduced chi-square of 11.7 (2 degrees of freedom, well under the general
+     * limit) and was 5.5 pixels off at its last pair while stating 0.27. So such a fit must pass a
+     * lack-of-fit test: the chance of a chi-square at least as large, for pairs that follow it with
+     * their stated uncertainties, Q(dof / 2, chi^2 / 2) (the chi-square distribution's upper tail,
+     * common practice), must be at least {@value #LACK_OF_FIT_PROBABILITY}.
+     */
+    void checkFitWhereTheDegreeIsCapped(String source, DispersionSolution solution) {
+        int dof = solution.degreesOfFreedom();
+        int d = solution.degree();
+        if (degree > 0 || d >= maxDegree || solution.usedCount() >= d + 4 || dof <= 0
+                || !Double.isFinite(solution.chiSquare())) {
+            return;
+        }
+        double probability = RegularizedGamma.Q.value(dof / 2.0, solution.chiSquare() / 2);
+        if (probability < LACK_OF_FIT_PROBABILITY) {
+            throw new CalibrationException(CalibrationException.IMPLAUSIBLE_FIT, String.format(Locale.ROOT,
+                    "%s: the %d fitted pairs disagree with the degree-%d polynomial (reduced chi-square %.3g with %d "
+                            + "degrees of freedom: probability %.2g for pairs that follow it, below %.2g), and too "
+                            + "few pairs remain to try degree %d (it needs %d): the dispersion is more curved than the "
+                            + "pairs can show, or a pairing is wrong. More lamp lines in the window, a prior, or a "
+                            + "degree fixed one higher (if the pairing is known to be right) would settle it",
+                    source, solution.usedCount(), d, solution.reducedChiSquare(), dof, probability,
+                    LACK_OF_FIT_PROBABILITY, d + 1, d + 4));
         }
     }
 

@@ -3,6 +3,7 @@ package org.ritzwerk.refdata.sweep;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.LongFunction;
 import org.ritzwerk.engine.calibrate.Calibration;
 import org.ritzwerk.engine.calibrate.CalibrationException;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
@@ -76,6 +77,29 @@ public final class CalibrationSweep {
      */
     public static Outcome run(long firstSeed, int runs, double curvature, Calibrator solver, boolean wrongLamp) {
         LampExposures exposures = new LampExposures();
+        return run(firstSeed, runs, seed -> exposures.exposure(seed, curvature), solver, wrongLamp);
+    }
+
+    /**
+     * @param firstSeed first seed; runs use firstSeed, firstSeed + 1, ...
+     * @param runs      how many exposures
+     * @param curvature largest relative slope change across the chip
+     * @param solver    the calibration settings
+     * @param gases     the lamp's species
+     * @param lowest    the shortest wavelength a window may start at, nm
+     * @param highest   the longest wavelength a window may reach, nm
+     * @return the outcome
+     */
+    public static Outcome run(long firstSeed, int runs, double curvature, Calibrator solver, String[] gases,
+            double lowest, double highest) {
+        LampExposures exposures = new LampExposures();
+        return run(firstSeed, runs, seed -> exposures.exposure(seed, curvature, gases, lowest, highest), solver,
+                false);
+    }
+
+    private static Outcome run(long firstSeed, int runs, LongFunction<LampExposures.Exposure> exposureOf,
+            Calibrator solver, boolean wrongLamp) {
+        LampExposures exposures = new LampExposures();
         int solved = 0;
         int refused = 0;
         int imprecise = 0;
@@ -90,7 +114,7 @@ public final class CalibrationSweep {
         List<String> notSolved = new ArrayList<>();
         int planned = runs;
         for (long seed = firstSeed; seed < firstSeed + planned; seed++) {
-            LampExposures.Exposure exposure = exposures.exposure(seed, curvature);
+            LampExposures.Exposure exposure = exposureOf.apply(seed);
             org.ritzwerk.engine.calibrate.LampSet lamp = wrongLamp ? exposures.otherGases(exposure) : exposure.lamp();
             if (lamp == null) {
                 runs--;

@@ -73,17 +73,29 @@ public final class LampExposures {
      * @return one exposure with at least 8 lamp lines in its window
      */
     public Exposure exposure(long seed, double curvature) {
+        return exposure(seed, curvature, null, 240, 990);
+    }
+
+    /**
+     * @param seed      the run's seed
+     * @param curvature the largest relative change of the slope across the chip (0.6 = 60 %)
+     * @param gases     the lamp's species, or null to draw a combination a lab would use
+     * @param lowest    the shortest wavelength a window may start at, nm
+     * @param highest   the longest wavelength a window may reach, nm
+     * @return one exposure with at least 8 lamp lines in its window
+     */
+    public Exposure exposure(long seed, double curvature, String[] gases, double lowest, double highest) {
         SplittableRandom random = new SplittableRandom(seed);
         while (true) {
             int pixels = new int[] {1024, 2048, 2048, 4096}[random.nextInt(4)];
-            String[] gases = LAMPS[random.nextInt(LAMPS.length)];
+            String[] drawn = gases != null ? gases : LAMPS[random.nextInt(LAMPS.length)];
             List<LineList> lists = new ArrayList<>();
-            for (String gas : gases) {
+            for (String gas : drawn) {
                 lists.add(data.lampLines(Species.parse(gas)));
             }
             LampSet lamp = LampSet.of(lists, Medium.air());
-            double start = 240 + 560 * random.nextDouble();
-            double span = Math.min(120 + 580 * random.nextDouble(), 990 - start);
+            double start = lowest + (highest - lowest - 190) * random.nextDouble();
+            double span = Math.min(120 + 580 * random.nextDouble(), highest - start);
             if (span < 80) {
                 continue;
             }
@@ -102,7 +114,7 @@ public final class LampExposures {
                 continue;
             }
             boolean falling = random.nextDouble() < 0.25;
-            return render(seed, random, pixels, lamp, String.join("+", gases), truth, falling, inWindow, kappa);
+            return render(seed, random, pixels, lamp, String.join("+", drawn), truth, falling, inWindow, kappa);
         }
     }
 
