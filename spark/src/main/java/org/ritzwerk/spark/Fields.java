@@ -296,12 +296,20 @@ final class Fields implements Serializable {
 
     /** @return the strings, checked not null, not empty and without null or blank elements */
     String[] strings(InternalRow row, String id, int field) {
+        return strings(row, id, field, false);
+    }
+
+    /**
+     * @param emptyAllowed whether an empty array is accepted
+     * @return the strings, checked not null and without null or blank elements
+     */
+    String[] strings(InternalRow row, String id, int field, boolean emptyAllowed) {
         if (isNull(row, field)) {
             throw bad(id, field, "is null");
         }
         ArrayData list = row.getArray(index[field]);
         int n = list.numElements();
-        if (n == 0) {
+        if (n == 0 && !emptyAllowed) {
             throw bad(id, field, "is empty");
         }
         String[] values = new String[n];

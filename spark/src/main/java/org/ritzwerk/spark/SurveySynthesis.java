@@ -10,6 +10,7 @@ import org.apache.spark.sql.catalyst.InternalRow;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeArrayWriter;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeRowWriter;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.LineList;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.ritz.RitzTransitions;
@@ -28,7 +29,7 @@ import org.ritzwerk.refdata.DataLines;
  * Synthetic spectra in bulk on Spark: for every row of a {@link Schemas#SCENES} table, exactly
  * the library's {@code Scene.builder(grid)...build().render(1)} as the {@code synth} command
  * composes it (one-electron ions first, then alkali atoms, then species with a level list such as
- * He I, each with its abundance; temperature,
+ * He I, each with its abundance, then the parameters' line lists as {@code --lines}; temperature,
  * electron density, velocity, resolving power and the row's own noise seed), giving one
  * {@link Schemas#SPECTRA} row with the counts, the expected counts and the true lines.
  *
@@ -99,6 +100,8 @@ public final class SurveySynthesis {
         private final Renderer renderer;
         private final Map<String, Setups.Atoms> species = new HashMap<>();
         private final Map<Species, RitzTransitions> transitions = new HashMap<>();
+        /** The parameters' line lists, read once per partition (an unknown set fails the setup). */
+        private final List<LineList> lineLists = new java.util.ArrayList<>();
         private final Catalyst.Strings strings = new Catalyst.Strings();
         /** The output row's writers: the spectrum, its arrays of doubles and its true lines. */
         private final UnsafeRowWriter out = new UnsafeRowWriter(Schemas.SPECTRA.size(), 65536);
@@ -112,6 +115,13 @@ public final class SurveySynthesis {
             this.grid = p.grid();
             this.medium = Medium.parse(p.medium());
             this.renderer = p.rendererChoice();
+            for (String set : p.lineSets()) {
+                try {
+                    lineLists.add(data.lineList(set));
+                } catch (RuntimeException e) {
+                    throw new IllegalArgumentException("lineSets " + set + ": " + e.getMessage(), e);
+                }
+            }
         }
 
         /** A level list's Ritz lines (E1 and LS rules, the context's A values), computed at first use. */
@@ -136,7 +146,7 @@ public final class SurveySynthesis {
 
         InternalRow synthesise(Fields f, InternalRow row) {
             String id = f.id(row);
-            String[] names = f.strings(row, id, 1);
+            String[] names = f.strings(row, id, 1, !lineLists.isEmpty());
             double[] abundances = f.optionalDoubles(row, id, 2, names.length, 0, true);
             double temperature = f.number(row, id, 3);
             double density = f.optionalNumber(row, id, 4);
@@ -203,6 +213,9 @@ public final class SurveySynthesis {
                         builder.levels(transitions(levels), abundances == null ? 1.0 : abundances[k],
                                 data.nucleus(levels.species()));
                     }
+                }
+                for (LineList list : lineLists) {
+                    builder.lineList(list, data::nucleus);
                 }
                 spectrum = builder.build().render(1);
             } catch (SceneException e) {

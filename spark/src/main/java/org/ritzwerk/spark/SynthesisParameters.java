@@ -4,23 +4,29 @@ import java.io.Serializable;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Renderer;
 import org.ritzwerk.medium.Medium;
 
 /**
- * What {@link SurveySynthesis} does with every scene row: the pixel grid, the one-electron ions'
- * level model, the highest n, the renderer, the peak counts and the read noise. The per-scene
- * physics (species, temperature, density, velocity, resolving power, seed) comes from the rows.
- * The same settings as the {@code synth} command's options, with the same defaults.
+ * What {@link SurveySynthesis} does with every scene row: the pixel grid (linear, or a
+ * spectrometer's dispersion polynomial), the one-electron ions' level model, the highest n, the
+ * renderer, the peak counts, the read noise and the line lists every scene also draws. The
+ * per-scene physics (species, temperature, density, velocity, resolving power, seed) comes from
+ * the rows. The same settings as the {@code synth} command's options, with the same defaults.
  *
  * <p>An immutable, serialisable value (Spark broadcasts it once per job); the canonical
  * constructor checks every field as the engine does.
  *
- * @param fromNm     the grid's first pixel edge, nm in {@code medium} (not converted between media)
- * @param toNm       its last pixel edge, nm
- * @param pixels     the number of pixels (a linear grid)
+ * @param fromNm     the linear grid's first pixel edge, nm in {@code medium} (not converted between
+ *                   media); NaN with a dispersion
+ * @param toNm       its last pixel edge, nm; NaN with a dispersion
+ * @param pixels     the number of pixels
+ * @param dispersion empty for the linear grid; else the coefficients c0, c1, ... of the wavelength
+ *                   in nm at pixel p (centre of pixel p, from 0), as {@code synth --dispersion}
+ *                   takes them ({@link PixelGrid#dispersion}); rising or falling with the pixel
  * @param medium     the axis medium: "air", "vacuum" or "air(&lt;model&gt;)"
  * @param model      level model of the one-electron ions: bohr, dirac, qed or hyperfine
  * @param nMax       highest upper n of their lines
@@ -29,14 +35,18 @@ import org.ritzwerk.medium.Medium;
  * @param readNoise  read noise in counts (Poisson noise always, drawn from each row's seed); NaN
  *                   for no noise at all (counts then equal the expected counts)
  * @param dataFiles  the user's data files, first in precedence; readable on every executor
+ * @param lineSets   line lists every scene also draws, as {@code synth --lines}: data set ids (such
+ *                   as {@code lamp-ne-i}) or line-list files readable on every executor; with
+ *                   them a scene's {@code species} may be empty (a lamp spectrum)
  *
  * <p>Serialisable only to travel from the driver to the executors of the same version, so the
  * serialised form is not part of the API.
  *
  * @serial exclude
  */
-public record SynthesisParameters(double fromNm, double toNm, int pixels, String medium, String model, int nMax,
-        String renderer, double peakCounts, double readNoise, List<String> dataFiles) implements Serializable {
+public record SynthesisParameters(double fromNm, double toNm, int pixels, List<Double> dispersion, String medium,
+        String model, int nMax, String renderer, double peakCounts, double readNoise, List<String> dataFiles,
+        List<String> lineSets) implements Serializable {
 
     private static final long serialVersionUID = 1L;
 
@@ -46,6 +56,7 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      * @param fromNm     as above
      * @param toNm       as above
      * @param pixels     as above
+     * @param dispersion as above
      * @param medium     as above
      * @param model      as above
      * @param nMax       as above
@@ -53,18 +64,19 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      * @param peakCounts as above
      * @param readNoise  as above
      * @param dataFiles  as above
+     * @param lineSets   as above
      */
     public SynthesisParameters {
         dataFiles = List.copyOf(dataFiles);
         Setups.requireDistinct("dataFiles", dataFiles, String::strip);
-        PixelGrid.linear(fromNm, toNm, pixels);
-        if (!(fromNm > 0)) {
-            throw new IllegalArgumentException("the grid must start above 0 nm, got " + fromNm);
-        }
+        lineSets = List.copyOf(lineSets);
+        Setups.requireDistinct("lineSets", lineSets, String::strip);
+        dispersion = List.copyOf(dispersion);
+        grid(fromNm, toNm, pixels, dispersion);
         Medium.parse(Objects.requireNonNull(medium, "medium"));
         Tier.fromId(Objects.requireNonNull(model, "model"));
-        if (nMax < 2 || nMax > org.ritzwerk.engine.hydrogenic.HydrogenLikeLines.MAX_N) {
-            throw new IllegalArgumentException("nMax must be 2 to " + org.ritzwerk.engine.hydrogenic.HydrogenLikeLines.MAX_N + ", got " + nMax);
+        if (nMax < 2 || nMax > HydrogenLikeLines.MAX_N) {
+            throw new IllegalArgumentException("nMax must be 2 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
         }
         Renderer.valueOf(Objects.requireNonNull(renderer, "renderer").toUpperCase(Locale.ROOT));
         if (!(peakCounts > 0) || Double.isInfinite(peakCounts)) {
@@ -85,7 +97,24 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      *         renderer auto, 10000 peak counts, Poisson noise with read noise 0
      */
     public static SynthesisParameters linear(double fromNm, double toNm, int pixels) {
-        return new SynthesisParameters(fromNm, toNm, pixels, "vacuum", "qed", 30, "auto", 10_000, 0, List.of());
+        return new SynthesisParameters(fromNm, toNm, pixels, List.of(), "vacuum", "qed", 30, "auto", 10_000, 0,
+                List.of(), List.of());
+    }
+
+    /**
+     * @param coefficients c0, c1, ... of the wavelength in nm (in the axis medium, vacuum here; see
+     *                     {@link #withMedium}) at the centre of pixel p, counted from 0, as
+     *                     {@code synth --dispersion c0,c1,... --pixels N} takes them
+     * @param pixels       number of pixels
+     * @return the {@code synth} command's defaults on that grid, as {@link #linear}
+     */
+    public static SynthesisParameters dispersion(double[] coefficients, int pixels) {
+        List<Double> c = new java.util.ArrayList<>();
+        for (double v : coefficients) {
+            c.add(v);
+        }
+        return new SynthesisParameters(Double.NaN, Double.NaN, pixels, c, "vacuum", "qed", 30, "auto", 10_000, 0,
+                List.of(), List.of());
     }
 
     /**
@@ -93,8 +122,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      * @return a copy
      */
     public SynthesisParameters withMedium(String mediumSpec) {
-        return new SynthesisParameters(fromNm, toNm, pixels, mediumSpec, model, nMax, renderer, peakCounts, readNoise,
-                dataFiles);
+        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, mediumSpec, model, nMax, renderer, peakCounts,
+                readNoise, dataFiles, lineSets);
     }
 
     /**
@@ -103,7 +132,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      * @return a copy
      */
     public SynthesisParameters withModel(String id, int n) {
-        return new SynthesisParameters(fromNm, toNm, pixels, medium, id, n, renderer, peakCounts, readNoise, dataFiles);
+        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, id, n, renderer, peakCounts, readNoise,
+                dataFiles, lineSets);
     }
 
     /**
@@ -112,7 +142,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      * @return a copy
      */
     public SynthesisParameters withCounts(double counts, double read) {
-        return new SynthesisParameters(fromNm, toNm, pixels, medium, model, nMax, renderer, counts, read, dataFiles);
+        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, model, nMax, renderer, counts, read,
+                dataFiles, lineSets);
     }
 
     /**
@@ -120,8 +151,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      * @return a copy
      */
     public SynthesisParameters withRenderer(String choice) {
-        return new SynthesisParameters(fromNm, toNm, pixels, medium, model, nMax, choice, peakCounts, readNoise,
-                dataFiles);
+        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, model, nMax, choice, peakCounts,
+                readNoise, dataFiles, lineSets);
     }
 
     /**
@@ -129,13 +160,53 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, String
      * @return a copy
      */
     public SynthesisParameters withDataFiles(List<String> files) {
-        return new SynthesisParameters(fromNm, toNm, pixels, medium, model, nMax, renderer, peakCounts, readNoise,
-                files);
+        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, model, nMax, renderer, peakCounts,
+                readNoise, files, lineSets);
+    }
+
+    /**
+     * @param sets line lists every scene also draws (data set ids or line-list files), as
+     *             {@code synth --lines}
+     * @return a copy
+     */
+    public SynthesisParameters withLineSets(List<String> sets) {
+        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, model, nMax, renderer, peakCounts,
+                readNoise, dataFiles, sets);
     }
 
     /** @return the grid */
     PixelGrid grid() {
-        return PixelGrid.linear(fromNm, toNm, pixels);
+        return grid(fromNm, toNm, pixels, dispersion);
+    }
+
+    /** The grid the fields describe, refusing what the engine or the command refuses. */
+    private static PixelGrid grid(double fromNm, double toNm, int pixels, List<Double> dispersion) {
+        if (dispersion.isEmpty()) {
+            PixelGrid grid = PixelGrid.linear(fromNm, toNm, pixels);
+            if (!(fromNm > 0)) {
+                throw new IllegalArgumentException("the grid must start above 0 nm, got " + fromNm);
+            }
+            return grid;
+        }
+        if (!Double.isNaN(fromNm) || !Double.isNaN(toNm)) {
+            throw new IllegalArgumentException("give a dispersion or fromNm/toNm, not both (fromNm and toNm must be"
+                    + " NaN with a dispersion)");
+        }
+        double[] c = new double[dispersion.size()];
+        for (int k = 0; k < c.length; k++) {
+            c[k] = Objects.requireNonNull(dispersion.get(k), "dispersion coefficient");
+        }
+        PixelGrid grid;
+        try {
+            grid = PixelGrid.dispersion(c, pixels);
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException("dispersion: " + e.getMessage(), e);
+        }
+        if (!(grid.lowest() > 0)) {
+            throw new IllegalArgumentException("dispersion: the wavelength must be above 0 nm on every pixel, but the"
+                    + " first pixel's edge is at " + grid.lowest() + " nm");
+        }
+        return grid;
     }
 
     /** @return the renderer */

@@ -37,10 +37,32 @@ class ParametersTest {
                 .withVelocitySearch(1e5).withUnit("cm-1", "vacuum");
         CalibrationParameters calibrate = CalibrationParameters.of(List.of("Ne I"), List.of()).withSecondOrder(false);
         SynthesisParameters synthesise = SynthesisParameters.linear(640, 670, 100).withMedium("air");
-        for (Object p : new Object[] {identify, calibrate, synthesise}) {
+        SynthesisParameters lamp = SynthesisParameters.dispersion(new double[] {580, 0.0735, -1e-6}, 2048)
+                .withLineSets(List.of("lamp-ne-i"));
+        for (Object p : new Object[] {identify, calibrate, synthesise, lamp}) {
             assertEquals(p, Setups.deserialise(Setups.serialise(p)));
         }
         assertEquals("vacuum", SynthesisParameters.linear(640, 670, 100).medium(),
                 "the synth command's default medium");
+    }
+
+    /** A dispersion grid is checked as {@code synth --dispersion} checks it. */
+    @Test
+    void aDispersionGridIsCheckedAsTheCommandChecksIt() {
+        SynthesisParameters grid = SynthesisParameters.dispersion(new double[] {580, 0.0735, -1e-6}, 2048);
+        assertEquals(List.of(580.0, 0.0735, -1e-6), grid.dispersion());
+        assertEquals(Double.NaN, grid.fromNm());
+        // The wavelength at the first pixel's lower edge: 580 - 0.0735 / 2 (the centre of pixel 0 is at c0).
+        assertEquals(580 - 0.0735 / 2, grid.grid().lowest(), 1e-3);
+        assertEquals("dispersion: the wavelength must be above 0 nm on every pixel, but the first pixel's edge is at"
+                + " -0.1 nm", assertThrows(IllegalArgumentException.class,
+                        () -> SynthesisParameters.dispersion(new double[] {0, 0.2}, 100)).getMessage());
+        assertThrows(IllegalArgumentException.class,
+                () -> SynthesisParameters.dispersion(new double[] {500, 0.1, -1e-3}, 2048), "turns within the chip");
+        assertEquals("give a dispersion or fromNm/toNm, not both (fromNm and toNm must be NaN with a dispersion)",
+                assertThrows(IllegalArgumentException.class, () -> new SynthesisParameters(500, 600, 100,
+                        List.of(500.0, 0.1), "air", "qed", 30, "auto", 1e4, 0, List.of(), List.of())).getMessage());
+        assertEquals("lineSets names 'lamp-ne-i' twice; give each once", assertThrows(IllegalArgumentException.class,
+                () -> grid.withLineSets(List.of("lamp-ne-i", "lamp-ne-i "))).getMessage());
     }
 }

@@ -163,6 +163,62 @@ class SurveySynthesisTest {
         assertEquals("row 'uneven', field 'abundances': has 1 elements, but species has 2", message);
     }
 
+    /**
+     * Lamp spectra for training sets: the built-in Ne I and Cd I lamp lists drawn on an invented
+     * spectrometer's dispersion (rising, and falling with the pixel), alone and beside H I, against
+     * the library's scene built as {@code synth --lines lamp-ne-i --lines lamp-cd-i --dispersion
+     * ...} composes it; a scene without species is a lamp scene only when line sets are given.
+     */
+    @Test
+    void lampScenesOnADispersionGridAreTheLibrarysBitForBit() {
+        SparkSession spark = LocalSpark.session();
+        List<Row> scenes = List.of(
+                RowFactory.create("lamp-1", new String[0], null, 400.0, null, 0.0, 4000.0, 1L),
+                RowFactory.create("lamp-2", new String[0], null, 600.0, null, 0.0, 2500.0, 2L),
+                RowFactory.create("lamp-h", new String[] {"H I"}, null, 9000.0, null, 0.0, 4000.0, 3L));
+        DataContext data = DataContext.discoverDefault();
+        for (double[] c : new double[][] {{580, 0.0735, -1e-6}, {726.3, -0.0735, 1e-6}}) {
+            SynthesisParameters lamp = SynthesisParameters.dispersion(c, 2048).withMedium("air")
+                    .withLineSets(List.of("lamp-ne-i", "lamp-cd-i")).withCounts(20_000, 4);
+            List<Row> out = SurveySynthesis.of(lamp).synthesise(spark.createDataFrame(scenes, Schemas.SCENES)
+                    .repartition(2)).collectAsList();
+            assertEquals(scenes.size(), out.size());
+            for (Row row : out) {
+                Row in = scenes.stream().filter(r -> r.getString(0).equals(row.getString(0))).findFirst()
+                        .orElseThrow();
+                Scene.Builder b = Scene.builder(PixelGrid.dispersion(c, 2048)).medium(Medium.air())
+                        .instrument(Instrument.ofResolvingPower(in.getDouble(6))).naturalWidths(false)
+                        .renderer(Renderer.AUTO).temperature(in.getDouble(3)).nMax(30).velocity(0).peakCounts(20_000);
+                if (((String[]) in.get(1)).length > 0) {
+                    Species h = Species.parse("H I");
+                    b.hydrogenLike(h, HydrogenLikeModel.of(data.nucleus(h), Tier.QED), 1.0);
+                }
+                b.noise(4, in.getLong(7));
+                b.lineList(data.lineList("lamp-ne-i"), data::nucleus);
+                b.lineList(data.lineList("lamp-cd-i"), data::nucleus);
+                SyntheticSpectrum s = b.build().render(1);
+                assertNull(row.getAs("failure"), row.getString(0));
+                assertArrayEquals(s.counts(), toArray(row.getList(1)), row.getString(0));
+                assertArrayEquals(s.expectedCounts(), toArray(row.getList(2)), row.getString(0));
+                List<Row> lines = row.getList(3);
+                assertEquals(s.lines().size(), lines.size());
+                for (int i = 0; i < lines.size(); i++) {
+                    assertEquals(s.lines().label(i), lines.get(i).getString(0));
+                    assertEquals(s.lineCounts(i), lines.get(i).getDouble(5));
+                }
+                assertTrue(lines.stream().anyMatch(l -> l.getString(0).startsWith("Cd I 643.847")),
+                        "the red Cd line is on the chip");
+            }
+        }
+        // Without line sets a scene needs species; an unknown line set fails the job naming it.
+        List<Row> none = List.of(RowFactory.create("bare", new String[0], null, 400.0, null, 0.0, 4000.0, 1L));
+        assertEquals("row 'bare', field 'species': is empty", SurveyIdentificationTest.failure(() -> SurveySynthesis
+                .of(GRID).synthesise(spark.createDataFrame(none, Schemas.SCENES)).count()));
+        String unknown = SurveyIdentificationTest.failure(() -> SurveySynthesis.of(GRID.withLineSets(
+                List.of("lamp-unobtainium"))).synthesise(spark.createDataFrame(none, Schemas.SCENES)).count());
+        assertTrue(unknown.contains("lineSets lamp-unobtainium: no data set 'lamp-unobtainium'"), unknown);
+    }
+
     private static double[] toArray(List<Double> list) {
         double[] values = new double[list.size()];
         for (int i = 0; i < values.length; i++) {
