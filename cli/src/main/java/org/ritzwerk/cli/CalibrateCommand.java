@@ -9,7 +9,6 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.CalibrationRecord;
-import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.StrengthClass;
 import org.ritzwerk.engine.calibrate.Calibration;
@@ -22,7 +21,7 @@ import org.ritzwerk.engine.calibrate.LampSet;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.CalibrationFiles;
 import org.ritzwerk.refdata.DataLines;
-import org.ritzwerk.refdata.DataRegistry;
+import org.ritzwerk.refdata.ReferenceDataException;
 import org.ritzwerk.refdata.OutputFiles;
 import org.ritzwerk.refdata.SpectrumFiles;
 import picocli.CommandLine.Command;
@@ -72,12 +71,9 @@ final class CalibrateCommand implements Callable<Integer> {
             description = "The spectrometer's resolving power lambda / FWHM, roughly: lamp lines of one gas closer "
                     + "than half the FWHM are merged into one blend at their intensity-weighted centroid. Given, it "
                     + "applies to every lamp line; by default only lamps built from a level list are merged, at "
-                    + "R = " + DEFAULT_LEVEL_LAMP_RESOLVING_POWER + " (their fine-structure components are listed "
-                    + "one by one).")
+                    + "R = " + DataLines.DEFAULT_LEVEL_LAMP_RESOLVING_POWER + " (their fine-structure components are "
+                    + "listed one by one).")
     Double resolvingPower;
-
-    /** The resolving power at which a lamp built from levels is blended when none is given (a compact spectrometer's). */
-    static final double DEFAULT_LEVEL_LAMP_RESOLVING_POWER = 5000;
 
     @Option(names = "--lines", paramLabel = "SET",
             description = "A line list of your own (file) or a data set id, with relative intensities. Repeatable.")
@@ -337,9 +333,6 @@ final class CalibrateCommand implements Callable<Integer> {
         if (lamps.isEmpty() && lineSets.isEmpty()) {
             throw new OptionException("give the lamp: --lamp \"Ne I\" (built-in sets) or --lines FILE");
         }
-        DataRegistry registry = data.context().registry();
-        LampSet fromLevels = null;
-        List<LineList> lists = new ArrayList<>();
         List<Species> lampSpecies = new ArrayList<>();
         for (String option : lamps) {
             for (String text : option.split(",")) {
@@ -348,47 +341,44 @@ final class CalibrateCommand implements Callable<Integer> {
         }
         OptionRules.distinct("--lamp", lampSpecies.stream().map(Species::notation).toList());
         OptionRules.distinct("--lines", lineSets);
-        for (Species species : lampSpecies) {
-            if (!registry.find(DataKind.LAMP_LINES, species).isEmpty()) {
-                lists.add(data.context().lampLines(species));
-            } else if (data.context().levelList(species).isPresent()) {
-                LampSet rated = DataLines.lamp(data.context(), species, solutionMedium);
-                double r = resolvingPower == null ? DEFAULT_LEVEL_LAMP_RESOLVING_POWER : resolvingPower;
-                int components = rated.size();
-                rated = rated.blendedAt(r);
-                spec.commandLine().getErr().println("note: " + species.notation() + ": no lamp set; using the "
-                        + components + " Ritz lines of " + rated.setIds() + " ranked by g_u A (equally populated"
-                        + " upper states; " + rated.withoutRate() + " lines without an A value and "
-                        + rated.outsideMedium() + " outside the " + solutionMedium.label() + " model's range left"
-                        + " out), as " + rated.size() + " lines at resolving power " + OptionRules.show(r));
-                fromLevels = fromLevels == null ? rated : fromLevels.plus(rated);
-            } else {
-                throw new OptionException("--lamp: no built-in lamp set or level list for " + species.notation()
-                        + "; see `ritzwerk data`, or give your own list with --lines");
-            }
-        }
+        List<LineList> lists = new ArrayList<>();
         for (String set : lineSets) {
             lists.add(LineSets.load(data.context(), set, "lamp set"));
         }
-        LampSet lamp;
+        DataLines.CalibrationLamp assembled;
         try {
-            lamp = lists.isEmpty() ? null : LampSet.of(lists, solutionMedium);
+            assembled = DataLines.calibrationLamp(data.context(), lampSpecies, lists, solutionMedium,
+                    resolvingPower == null ? Double.NaN : resolvingPower);
+        } catch (ReferenceDataException e) {
+            if (ReferenceDataException.UNKNOWN_DATA_SET.equals(e.code())) {
+                throw new OptionException("--lamp: " + e.getMessage() + "; see `ritzwerk data`, or give your own"
+                        + " list with --lines", e);
+            }
+            throw e;
         } catch (IllegalArgumentException e) {
             throw new OptionException("--lamp/--lines: " + e.getMessage(), e);
         }
-        if (lamp != null && lamp.duplicatesMerged() > 0) {
-            spec.commandLine().getErr().println("note: " + lamp.duplicatesMerged() + " lines of " + lamp.setIds()
-                    + " repeat an earlier list's line of the same species (within 1e-4 nm) and are used once");
+        for (DataLines.LevelLamp gas : assembled.fromLevels()) {
+            LampSet rated = gas.lamp();
+            spec.commandLine().getErr().println("note: " + gas.species().notation() + ": no lamp set; using the "
+                    + gas.components() + " Ritz lines of " + rated.setIds() + " ranked by g_u A (equally populated"
+                    + " upper states; " + rated.withoutRate() + " lines without an A value and "
+                    + rated.outsideMedium() + " outside the " + solutionMedium.label() + " model's range left"
+                    + " out), as " + rated.size() + " lines at resolving power " + OptionRules.show(
+                            gas.resolvingPower()));
         }
-        if (lamp != null && lamp.outsideMedium() > 0) {
-            spec.commandLine().getErr().println("note: " + lamp.outsideMedium() + " lines of " + lamp.setIds()
-                    + " lie outside the range of the " + solutionMedium.label() + " model (far ultraviolet or"
-                    + " infrared) and are left out; " + lamp.size() + " lines are used");
+        LampSet fromLists = assembled.fromLists();
+        if (fromLists != null && fromLists.duplicatesMerged() > 0) {
+            spec.commandLine().getErr().println("note: " + fromLists.duplicatesMerged() + " lines of "
+                    + fromLists.setIds() + " repeat an earlier list's line of the same species (within 1e-4 nm) and"
+                    + " are used once");
         }
-        if (lamp != null && resolvingPower != null) {
-            lamp = lamp.blendedAt(resolvingPower);
+        if (fromLists != null && fromLists.outsideMedium() > 0) {
+            spec.commandLine().getErr().println("note: " + fromLists.outsideMedium() + " lines of "
+                    + fromLists.setIds() + " lie outside the range of the " + solutionMedium.label() + " model (far"
+                    + " ultraviolet or infrared) and are left out; " + fromLists.size() + " lines are used");
         }
-        lamp = lamp == null ? fromLevels : fromLevels == null ? lamp : lamp.plus(fromLevels);
+        LampSet lamp = assembled.lamp();
         if (minStrength == null) {
             return lamp;
         }

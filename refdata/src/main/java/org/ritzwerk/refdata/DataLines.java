@@ -150,6 +150,96 @@ public final class DataLines {
     }
 
     /**
+     * The resolving power at which a lamp built from a level list is blended when none is given
+     * (a compact spectrometer's, roughly; common practice).
+     */
+    public static final double DEFAULT_LEVEL_LAMP_RESOLVING_POWER = 5000;
+
+    /**
+     * A gas of a calibration lamp that has no lamp set and was built from its level list.
+     *
+     * @param species        the gas
+     * @param components     its rated Ritz lines before blending
+     * @param lamp           its lines blended at the resolving power
+     * @param resolvingPower the resolving power they were blended at
+     */
+    public record LevelLamp(Species species, int components, LampSet lamp, double resolvingPower) {
+    }
+
+    /**
+     * A calibration lamp as the {@code calibrate} command and the Spark operation assemble it.
+     *
+     * @param lamp       every line: the lists' lines, then those of the gases built from levels
+     * @param fromLists  the built-in lamp sets and the given lists together (blended when a resolving
+     *                   power was given), or null when there are none
+     * @param fromLevels the gases built from their level lists, in the order given
+     */
+    public record CalibrationLamp(LampSet lamp, LampSet fromLists, List<LevelLamp> fromLevels) {
+
+        /** Copies the list. */
+        public CalibrationLamp {
+            Objects.requireNonNull(lamp, "lamp");
+            fromLevels = List.copyOf(fromLevels);
+        }
+    }
+
+    /**
+     * The lamp of a calibration: for each gas its lamp set of highest precedence
+     * ({@link DataContext#lampLines}) where the context has one, else the lines of its level list
+     * ranked by g_u A ({@link #lamp}) and blended at the resolving power (by default
+     * {@value #DEFAULT_LEVEL_LAMP_RESOLVING_POWER}: a level list gives every fine-structure
+     * component, which a spectrometer does not resolve); then the given line lists. A resolving
+     * power that is given blends the lamp sets and lists too. The caller checks that no gas or
+     * list is named twice.
+     *
+     * @param context        where the data comes from
+     * @param gases          the lamp's gases ({@code Ne I}, {@code He I}); may be empty
+     * @param lists          line lists of the lamp (a user's files); may be empty
+     * @param medium         the medium of the calibration's wavelengths
+     * @param resolvingPower lambda / FWHM of the spectrometer, 1 to 1e7, or NaN for none given
+     * @return the lamp and what it was made of
+     * @throws IllegalArgumentException when there is no gas and no list, for a resolving power out
+     *         of range, or when the lists cannot be joined (the lamp set's own checks)
+     * @throws ReferenceDataException   ({@code unknown-data-set}) naming a gas with neither a lamp
+     *         set nor a level list; ({@code missing-quantity}) for a level list without rates
+     */
+    public static CalibrationLamp calibrationLamp(DataContext context, List<Species> gases, List<LineList> lists,
+            Medium medium, double resolvingPower) {
+        Objects.requireNonNull(context, "context");
+        Objects.requireNonNull(medium, "medium");
+        if (gases.isEmpty() && lists.isEmpty()) {
+            throw new IllegalArgumentException("a lamp needs a gas or a line list");
+        }
+        if (!Double.isNaN(resolvingPower) && !(resolvingPower >= 1 && resolvingPower <= 1e7)) {
+            throw new IllegalArgumentException("resolving power must be 1 to 1e7, got " + resolvingPower);
+        }
+        List<LineList> all = new java.util.ArrayList<>();
+        List<LevelLamp> fromLevels = new java.util.ArrayList<>();
+        LampSet levelLines = null;
+        for (Species gas : gases) {
+            if (!context.registry().find(DataKind.LAMP_LINES, gas).isEmpty()) {
+                all.add(context.lampLines(gas));
+            } else if (context.levelList(gas).isPresent()) {
+                LampSet rated = lamp(context, gas, medium);
+                double r = Double.isNaN(resolvingPower) ? DEFAULT_LEVEL_LAMP_RESOLVING_POWER : resolvingPower;
+                LampSet blended = rated.blendedAt(r);
+                fromLevels.add(new LevelLamp(gas, rated.size(), blended, r));
+                levelLines = levelLines == null ? blended : levelLines.plus(blended);
+            } else {
+                throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no built-in lamp set or"
+                        + " level list for " + gas.notation());
+            }
+        }
+        all.addAll(lists);
+        LampSet fromLists = all.isEmpty() ? null : LampSet.of(all, medium);
+        if (fromLists != null && !Double.isNaN(resolvingPower)) {
+            fromLists = fromLists.blendedAt(resolvingPower);
+        }
+        LampSet lamp = fromLists == null ? levelLines : levelLines == null ? fromLists : fromLists.plus(levelLines);
+        return new CalibrationLamp(lamp, fromLists, fromLevels);
+    }
+
+    /**
      * @param sources    sources so far (e.g. {@link LineSources#none()})
      * @param context    where the data comes from
      * @param idsOrPaths line or lamp set ids ({@code lamp-ne-i}) or line-list files

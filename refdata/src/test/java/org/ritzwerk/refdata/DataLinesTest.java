@@ -56,6 +56,45 @@ class DataLinesTest {
         assertThrows(ReferenceDataException.class, () -> DataLines.lamp(data, Species.parse("Xe II"), Medium.air()));
     }
 
+    /**
+     * A calibration lamp of several gases: lamp sets as they are (Ne I, unblended without a
+     * resolving power), a gas with only a level list (He I) blended at the default resolving power,
+     * the sets first; a given resolving power blends both; a gas with neither is refused by name.
+     */
+    @Test
+    void aCalibrationLampJoinsLampSetsAndLevelListsAsTheCommandDoes() {
+        DataContext data = DataContext.builtIn();
+        Species ne = Species.parse("Ne I");
+        Species he = Species.parse("He I");
+        DataLines.CalibrationLamp lamp = DataLines.calibrationLamp(data, List.of(he, ne), List.of(), Medium.air(),
+                Double.NaN);
+        org.ritzwerk.engine.calibrate.LampSet neon = DataLines.lamp(data, ne, Medium.air());
+        org.ritzwerk.engine.calibrate.LampSet helium = DataLines.lamp(data, he, Medium.air())
+                .blendedAt(DataLines.DEFAULT_LEVEL_LAMP_RESOLVING_POWER);
+        assertEquals(neon.size(), lamp.fromLists().size());
+        assertEquals(1, lamp.fromLevels().size());
+        assertEquals(he, lamp.fromLevels().get(0).species());
+        assertEquals(DataLines.lamp(data, he, Medium.air()).size(), lamp.fromLevels().get(0).components());
+        assertEquals(helium.size(), lamp.fromLevels().get(0).lamp().size());
+        assertTrue(helium.size() < lamp.fromLevels().get(0).components(), "587.6 nm's components are one line");
+        assertEquals(neon.size() + helium.size(), lamp.lamp().size());
+        assertEquals(List.of("lamp-ne-i", "levels-he-i"), lamp.lamp().setIds());
+
+        DataLines.CalibrationLamp coarse = DataLines.calibrationLamp(data, List.of(ne, he), List.of(), Medium.air(),
+                500);
+        assertEquals(neon.blendedAt(500).size(), coarse.fromLists().size());
+        assertTrue(coarse.fromLists().size() < neon.size(), "neon lines closer than half the FWHM at R = 500 merge");
+        assertEquals(500, coarse.fromLevels().get(0).resolvingPower());
+
+        ReferenceDataException unknown = assertThrows(ReferenceDataException.class, () -> DataLines.calibrationLamp(
+                data, List.of(Species.parse("Xe II")), List.of(), Medium.air(), Double.NaN));
+        assertEquals("no built-in lamp set or level list for Xe II", unknown.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> DataLines.calibrationLamp(data, List.of(), List.of(),
+                Medium.air(), Double.NaN));
+        assertThrows(IllegalArgumentException.class, () -> DataLines.calibrationLamp(data, List.of(ne), List.of(),
+                Medium.air(), 0.5));
+    }
+
     @Test
     void ionsAtomsAndListsOfTheContextAnswerOneQuery() {
         DataContext data = DataContext.builtIn();
