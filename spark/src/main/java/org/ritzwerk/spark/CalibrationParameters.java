@@ -19,7 +19,10 @@ import org.ritzwerk.medium.Medium;
  * <p>An immutable, serialisable value (Spark broadcasts it once per job); the canonical
  * constructor checks every field as the engine does.
  *
- * @param lamps             species of built-in lamp sets ("Ne I", "Ar I", ...); may be empty
+ * @param lamps             the lamp's gases ("Ne I", "Ar I", ...): their built-in lamp sets, or for a
+ *                          gas with a level list and no lamp set ("He I") its Ritz lines ranked by
+ *                          g_u A, as {@code calibrate --lamp} takes them
+ *                          ({@code DataLines.calibrationLamp}); may be empty
  * @param lineSets          data-set ids or line-list files; may be empty, not together with lamps
  * @param dataFiles         the user's data files, first in precedence; readable on every executor
  * @param medium            medium of the solutions' wavelengths: "air", "vacuum" or "air(&lt;model&gt;)"
@@ -39,6 +42,9 @@ import org.ritzwerk.medium.Medium;
  *                          command's default; false as {@code --no-second-order})
  * @param requiredPrecision the largest accepted stated standard uncertainty, pixels, between the
  *                          first and last fitted line ({@code --required-precision}); NaN for none
+ * @param resolvingPower    the spectrometer's resolving power, 1 to 1e7 ({@code --resolving-power}):
+ *                          lamp lines of one gas closer than half the FWHM are merged; NaN for the
+ *                          command's default (only gases built from levels merged, at 5000)
  *
  * <p>Serialisable only to travel from the driver to the executors of the same version, so the
  * serialised form is not part of the API.
@@ -48,7 +54,8 @@ import org.ritzwerk.medium.Medium;
 public record CalibrationParameters(List<String> lamps, List<String> lineSets, List<String> dataFiles, String medium,
         String minStrength, double threshold, double tolerancePixels, double minMatched, double clip, int degree,
         int maxDegree, double saturation, double priorFromNm, double priorToNm, double minDispersion,
-        double maxDispersion, boolean secondOrder, double requiredPrecision) implements Serializable {
+        double maxDispersion, boolean secondOrder, double requiredPrecision, double resolvingPower)
+        implements Serializable {
 
     private static final long serialVersionUID = 1L;
 
@@ -73,6 +80,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @param maxDispersion   as above
      * @param secondOrder     as above
      * @param requiredPrecision as above
+     * @param resolvingPower  as above
      */
     public CalibrationParameters {
         lamps = List.copyOf(lamps);
@@ -94,6 +102,10 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
         calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
                 requiredPrecision);
         prior(priorFromNm, priorToNm, minDispersion, maxDispersion);
+        if (!Double.isNaN(resolvingPower) && !(resolvingPower >= 1 && resolvingPower <= 1e7)) {
+            throw new IllegalArgumentException("resolvingPower must be 1 to 1e7, or NaN for the default, got "
+                    + resolvingPower);
+        }
     }
 
     /**
@@ -107,7 +119,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
         return new CalibrationParameters(lamps, lineSets, List.of(), "air", null, PeakFinder.DEFAULT_THRESHOLD,
                 Calibrator.DEFAULT_TOLERANCE, Calibrator.DEFAULT_MIN_MATCHED, DispersionFit.DEFAULT_CLIP, 0,
                 Calibrator.DEFAULT_MAX_DEGREE, Double.NaN, Double.NaN, Double.NaN,
-                LampMatcher.Prior.none().minDispersion(), LampMatcher.Prior.none().maxDispersion(), true, Double.NaN);
+                LampMatcher.Prior.none().minDispersion(), LampMatcher.Prior.none().maxDispersion(), true, Double.NaN,
+                Double.NaN);
     }
 
     /**
@@ -116,8 +129,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withMedium(String mediumSpec) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, mediumSpec, minStrength, threshold,
-                tolerancePixels, minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion,
-                maxDispersion, secondOrder, requiredPrecision);
+                tolerancePixels, minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm,
+                minDispersion, maxDispersion, secondOrder, requiredPrecision, resolvingPower);
     }
 
     /**
@@ -126,7 +139,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withDataFiles(List<String> files) {
         return new CalibrationParameters(lamps, lineSets, files, medium, minStrength, threshold, tolerancePixels,
-                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion, secondOrder, requiredPrecision);
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                secondOrder, requiredPrecision, resolvingPower);
     }
 
     /**
@@ -136,7 +150,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withDegree(int fixed, int highest) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
-                minMatched, clip, fixed, highest, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion, secondOrder, requiredPrecision);
+                minMatched, clip, fixed, highest, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                secondOrder, requiredPrecision, resolvingPower);
     }
 
     /**
@@ -145,7 +160,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withSaturation(double counts) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
-                minMatched, clip, degree, maxDegree, counts, priorFromNm, priorToNm, minDispersion, maxDispersion, secondOrder, requiredPrecision);
+                minMatched, clip, degree, maxDegree, counts, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                secondOrder, requiredPrecision, resolvingPower);
     }
 
     /**
@@ -157,7 +173,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      */
     public CalibrationParameters withPrior(double fromNm, double toNm, double minNmPerPixel, double maxNmPerPixel) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
-                minMatched, clip, degree, maxDegree, saturation, fromNm, toNm, minNmPerPixel, maxNmPerPixel, secondOrder, requiredPrecision);
+                minMatched, clip, degree, maxDegree, saturation, fromNm, toNm, minNmPerPixel, maxNmPerPixel,
+                secondOrder, requiredPrecision, resolvingPower);
     }
 
     /**
@@ -167,7 +184,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withSecondOrder(boolean considered) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                considered, requiredPrecision);
+                considered, requiredPrecision, resolvingPower);
     }
 
     /**
@@ -179,7 +196,17 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withRequiredPrecision(double pixels) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, pixels);
+                secondOrder, pixels, resolvingPower);
+    }
+
+    /**
+     * @param r the spectrometer's resolving power, 1 to 1e7, or NaN for the command's default
+     * @return a copy
+     */
+    public CalibrationParameters withResolvingPower(double r) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                secondOrder, requiredPrecision, r);
     }
 
     /** @return the calibrator these settings describe (as the command configures it) */

@@ -28,6 +28,7 @@ import org.ritzwerk.engine.calibrate.LampMatcher;
 import org.ritzwerk.engine.calibrate.LampSet;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.DataLines;
 
 /**
  * Wavelength calibration of many lamp exposures on Spark, and its application to science
@@ -140,14 +141,18 @@ public final class SurveyCalibration {
 
         Setup(CalibrationParameters p) {
             DataContext data = Setups.context(p.dataFiles());
-            List<LineList> lists = new ArrayList<>();
+            List<Species> gases = new ArrayList<>();
             for (String text : p.lamps()) {
-                lists.add(data.lampLines(Species.parse(text.strip())));
+                gases.add(Species.parse(text.strip()));
             }
+            List<LineList> lists = new ArrayList<>();
             for (String set : p.lineSets()) {
                 lists.add(data.lineList(set));
             }
-            LampSet all = LampSet.of(lists, Medium.parse(p.medium()));
+            // As the calibrate command assembles its lamp (gases with only a level list, such as He I,
+            // ranked by g_u A and blended at the resolving power).
+            LampSet all = DataLines.calibrationLamp(data, gases, lists, Medium.parse(p.medium()), p.resolvingPower())
+                    .lamp();
             this.lamp = p.minStrength() == null ? all : all.atLeast(StrengthClass.fromId(p.minStrength()));
             this.calibrator = p.calibrator();
             this.prior = p.prior();

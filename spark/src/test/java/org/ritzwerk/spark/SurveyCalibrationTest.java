@@ -175,6 +175,42 @@ class SurveyCalibrationTest {
                 () -> CalibrationParameters.of(List.of("Ne I"), List.of()).withRequiredPrecision(-1));
     }
 
+    /**
+     * A helium lamp, which has no lamp set: its lamp is built from the He I level list as the
+     * calibrate command builds it ({@code DataLines.calibrationLamp}: Ritz lines ranked by g_u A,
+     * blended at the resolving power, 5000 by default), and each solution is the library's bit for
+     * bit. The exposure is a synthetic helium discharge on an invented spectrometer (4096 pixels,
+     * 380 to 756 nm, R = 3000, 30,000 K).
+     */
+    @Test
+    void aHeliumLampFromTheLevelListIsTheLibrarysBitForBit() {
+        SparkSession spark = LocalSpark.session();
+        DataContext data = DataContext.builtIn();
+        Species he = Species.parse("He I");
+        org.ritzwerk.engine.synth.PixelGrid grid = org.ritzwerk.engine.synth.PixelGrid.linear(380, 756, 4096);
+        double[] counts = org.ritzwerk.engine.synth.Scene.builder(grid).medium(Medium.air())
+                .instrument(org.ritzwerk.engine.synth.Instrument.ofResolvingPower(3000)).temperature(30_000)
+                .peakCounts(20_000).levels(org.ritzwerk.refdata.DataLines.levels(data, he),
+                        org.ritzwerk.refdata.DataLines.ritzLines(data, he), 1.0, data.nucleus(he))
+                .noise(3, 5).build().render(1).counts();
+        Dataset<Row> table = spark.createDataFrame(List.of(RowFactory.create("he-1", counts, null)),
+                Schemas.EXPOSURES);
+        for (double r : new double[] {Double.NaN, 3000}) {
+            Row row = SurveyCalibration.of(CalibrationParameters.of(List.of("He I"), List.of()).withResolvingPower(r))
+                    .calibrate(table).collectAsList().get(0);
+            LampSet lamp = org.ritzwerk.refdata.DataLines.calibrationLamp(data, List.of(he), List.of(), Medium.air(),
+                    r).lamp();
+            Calibration c = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts).lamp(lamp)
+                    .source("he-1").build());
+            assertNull(row.getAs("failure"), "R " + r);
+            assertArrayEquals(c.solution().polynomial().coefficients(), doubles(row.getList(6)), "R " + r);
+            assertEquals(c.pairLabels(), row.getList(21));
+            assertTrue(c.pairLabels().stream().anyMatch(l -> l.contains("blended")), "587.6 nm as one line");
+        }
+        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                () -> CalibrationParameters.of(List.of("He I"), List.of()).withResolvingPower(0.5));
+    }
+
     @Test
     void aMalformedExposureFailsTheJobNamingItsIdAndField() {
         SparkSession spark = LocalSpark.session();
