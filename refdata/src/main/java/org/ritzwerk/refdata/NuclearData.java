@@ -485,7 +485,14 @@ public final class NuclearData {
             if (!(mass > 0)) {
                 throw new FieldProblem("field mass_u must be positive, got " + fields[3], column(3));
             }
-            Isotope.SourceKeys keys = new Isotope.SourceKeys(fields[5], fields[9], fields[12]);
+            Isotope.SourceKeys keys;
+            try {
+                keys = new Isotope.SourceKeys(fields[5], fields[9], fields[12]);
+            } catch (IllegalArgumentException e) {
+                int bad = fields[5].matches(".*[,\r\n].*") ? 5 : fields[9].matches(".*[,\r\n].*") ? 9 : 12;
+                throw new FieldProblem("field " + ISOTOPE_COLUMNS.get(bad) + ": a source key must hold no comma or line"
+                        + " break", column(bad));
+            }
             double massSigma = number(4, "mass_unc_u");
             int twiceSpin = twiceSpin(fields[6]);
             OptionalDouble moment = optional(7, "moment_nm");

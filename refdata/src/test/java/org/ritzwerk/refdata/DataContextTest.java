@@ -360,6 +360,11 @@ class DataContextTest {
         assertEquals(List.of("nuclear.bad-field", "nuclear.duplicate-isotope"),
                 twice.problems().stream().map(DataProblem::code).toList());
         assertTrue(twice.getMessage().contains(":10: isotope H-1 is given twice"), twice.getMessage());
+        // A carriage return inside a source key (a file edited on two systems) was an internal error.
+        Files.writeString(file, ISOTOPES.replace("4.1989,,TEST", "4.1989,,TE\rST"), StandardCharsets.UTF_8);
+        DataFileException cr = assertThrows(DataFileException.class, () -> UserFiles.read(file));
+        assertEquals(file + ":9:45: field radius_source: a source key must hold no comma or line break",
+                cr.problems().get(0).render().lines().findFirst().orElseThrow());
     }
 
     @Test
