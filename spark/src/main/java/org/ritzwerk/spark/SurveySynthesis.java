@@ -4,6 +4,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import java.util.function.DoubleUnaryOperator;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.catalyst.InternalRow;
@@ -15,6 +16,7 @@ import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.ritz.RitzTransitions;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.synth.Continuum;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Renderer;
@@ -182,8 +184,9 @@ public final class SurveySynthesis {
                 throw new SparkRowException(SparkRowException.BAD_FIELD, id, "resolving_power", "is "
                         + resolvingPower + "; it must be above 0");
             }
-            Scene.Builder builder = Scene.builder(grid).medium(medium).naturalWidths(false).renderer(renderer)
-                    .nMax(p.nMax()).peakCounts(p.peakCounts());
+            Scene.Builder builder = Scene.builder(grid).medium(medium).naturalWidths(p.shapes().naturalWidths())
+                    .components(p.shapes().components()).renderer(renderer).nMax(p.nMax()).peakCounts(p.peakCounts())
+                    .collisionalFwhm(p.shapes().collisionalFwhmNm());
             // The engine's own range checks, each refusal naming the row's field.
             set(id, "resolving_power", () -> builder.instrument(Instrument.ofResolvingPower(resolvingPower)));
             set(id, "temperature_k", () -> builder.temperature(temperature));
@@ -217,6 +220,7 @@ public final class SurveySynthesis {
                 for (LineList list : lineLists) {
                     builder.lineList(list, data::nucleus);
                 }
+                continuum(builder, temperature);
                 spectrum = builder.build().render(1);
             } catch (SceneException e) {
                 out.reset();
@@ -255,6 +259,23 @@ public final class SurveySynthesis {
             out.setNullAt(4);
             out.setNullAt(5);
             return out.getRow();
+        }
+
+        /** The parameters' continuum, as the command draws it (a blackbody at the scene's temperature by default). */
+        private void continuum(Scene.Builder builder, double temperature) {
+            SynthesisParameters.Background background = p.background();
+            DoubleUnaryOperator density;
+            switch (background.kind()) {
+                case "flat" -> density = nm -> 1;
+                case "blackbody" -> {
+                    double t = Double.isNaN(background.temperatureK()) ? temperature : background.temperatureK();
+                    density = nm -> Continuum.planckPhotonsPerWavelength(medium.toVacuum(nm * 1e-9), t);
+                }
+                default -> {
+                    return;
+                }
+            }
+            builder.continuum(density, background.counts());
         }
 
         /** Applies one setting of the scene, an engine refusal naming the row's field. */

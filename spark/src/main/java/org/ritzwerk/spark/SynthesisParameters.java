@@ -8,12 +8,14 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.Tier;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Renderer;
+import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.medium.Medium;
 
 /**
- * What {@link SurveySynthesis} does with every scene row: the pixel grid (linear, or a
- * spectrometer's dispersion polynomial), the one-electron ions' level model, the highest n, the
- * renderer, the peak counts, the read noise and the line lists every scene also draws. The
+ * What {@link SurveySynthesis} does with every scene row: the pixel grid (linear, logarithmic, or
+ * a spectrometer's dispersion polynomial), the one-electron ions' level model, the highest n, the
+ * renderer, the peak counts, the read noise, the line lists every scene also draws, the line
+ * shapes' extra widths and a continuum. The
  * per-scene physics (species, temperature, density, velocity, resolving power, seed) comes from
  * the rows. The same settings as the {@code synth} command's options, with the same defaults.
  *
@@ -24,6 +26,8 @@ import org.ritzwerk.medium.Medium;
  *                   media); NaN with a dispersion
  * @param toNm       its last pixel edge, nm; NaN with a dispersion
  * @param pixels     the number of pixels
+ * @param logarithmic whether the grid between fromNm and toNm is logarithmic (pixels of equal
+ *                   lambda / d lambda, as {@code synth --grid log}) rather than linear
  * @param dispersion empty for the linear grid; else the coefficients c0, c1, ... of the wavelength
  *                   in nm at pixel p (centre of pixel p, from 0), as {@code synth --dispersion}
  *                   takes them ({@link PixelGrid#dispersion}); rising or falling with the pixel
@@ -38,17 +42,86 @@ import org.ritzwerk.medium.Medium;
  * @param lineSets   line lists every scene also draws, as {@code synth --lines}: data set ids (such
  *                   as {@code lamp-ne-i}) or line-list files readable on every executor; with
  *                   them a scene's {@code species} may be empty (a lamp spectrum)
+ * @param shapes     widths added to every line, and fine-structure components
+ * @param background the continuum under the lines
  *
  * <p>Serialisable only to travel from the driver to the executors of the same version, so the
  * serialised form is not part of the API.
  *
  * @serial exclude
  */
-public record SynthesisParameters(double fromNm, double toNm, int pixels, List<Double> dispersion, String medium,
-        String model, int nMax, String renderer, double peakCounts, double readNoise, List<String> dataFiles,
-        List<String> lineSets) implements Serializable {
+public record SynthesisParameters(double fromNm, double toNm, int pixels, boolean logarithmic,
+        List<Double> dispersion, String medium, String model, int nMax, String renderer, double peakCounts,
+        double readNoise, List<String> dataFiles, List<String> lineSets, Shapes shapes, Background background)
+        implements Serializable {
 
     private static final long serialVersionUID = 1L;
+
+    /**
+     * Line-shape settings of {@code synth}.
+     *
+     * @param collisionalFwhmNm a Lorentzian FWHM in nm given to every line
+     *                          ({@code --collisional-width}), 0 to 1000 times the grid's span
+     * @param naturalWidths     whether the lines' natural widths are added ({@code --natural-widths};
+     *                          with one-electron ions nMax must be at most
+     *                          {@link Scene#MAX_N_WITH_NATURAL_WIDTHS})
+     * @param components        whether one-electron ions' fine-structure components are drawn one by
+     *                          one ({@code --components})
+     */
+    public record Shapes(double collisionalFwhmNm, boolean naturalWidths, boolean components)
+            implements Serializable {
+
+        private static final long serialVersionUID = 1L;
+
+        /** Checks the width. */
+        public Shapes {
+            if (!(collisionalFwhmNm >= 0) || Double.isInfinite(collisionalFwhmNm)) {
+                throw new IllegalArgumentException("collisionalFwhmNm must be finite and not negative, got "
+                        + collisionalFwhmNm);
+            }
+        }
+
+        /** @return no extra width, no components: the command's defaults */
+        public static Shapes none() {
+            return new Shapes(0, false, false);
+        }
+    }
+
+    /**
+     * The continuum of {@code synth --continuum}.
+     *
+     * @param kind         none, flat, or blackbody (photons per wavelength, as the command draws it)
+     * @param temperatureK the blackbody's temperature; NaN for each scene's own {@code temperature_k}
+     *                     (the command's default); NaN unless blackbody
+     * @param counts       the expected counts of the continuum's brightest pixel (the command's
+     *                     {@code --continuum-counts}, default 100)
+     */
+    public record Background(String kind, double temperatureK, double counts) implements Serializable {
+
+        private static final long serialVersionUID = 1L;
+
+        /** Checks every field as the command does. */
+        public Background {
+            Objects.requireNonNull(kind, "kind");
+            if (!List.of("none", "flat", "blackbody").contains(kind)) {
+                throw new IllegalArgumentException("continuum kind must be none, flat or blackbody, got '" + kind
+                        + "'");
+            }
+            if (!Double.isNaN(temperatureK) && !(kind.equals("blackbody") && temperatureK > 0
+                    && temperatureK < 1e9)) {
+                throw new IllegalArgumentException("a continuum temperature is for a blackbody, above 0 and below"
+                        + " 1e9 K (or NaN for each scene's temperature), got " + temperatureK);
+            }
+            if (!(counts > 0 && counts <= 1e15)) {
+                throw new IllegalArgumentException("continuum counts must be above 0 and at most 1e15, got " + counts);
+            }
+        }
+
+        /** @return no continuum */
+        public static Background none() {
+            return new Background("none", Double.NaN, 100);
+        }
+    }
 
     /**
      * Checks every field and copies the list.
@@ -56,6 +129,7 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      * @param fromNm     as above
      * @param toNm       as above
      * @param pixels     as above
+     * @param logarithmic as above
      * @param dispersion as above
      * @param medium     as above
      * @param model      as above
@@ -65,6 +139,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      * @param readNoise  as above
      * @param dataFiles  as above
      * @param lineSets   as above
+     * @param shapes     as above
+     * @param background as above
      */
     public SynthesisParameters {
         dataFiles = List.copyOf(dataFiles);
@@ -72,7 +148,18 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
         lineSets = List.copyOf(lineSets);
         Setups.requireDistinct("lineSets", lineSets, String::strip);
         dispersion = List.copyOf(dispersion);
-        grid(fromNm, toNm, pixels, dispersion);
+        PixelGrid checked = grid(fromNm, toNm, pixels, logarithmic, dispersion);
+        Objects.requireNonNull(shapes, "shapes");
+        Objects.requireNonNull(background, "background");
+        double span = checked.highest() - checked.lowest();
+        if (shapes.collisionalFwhmNm() > 1000 * span) {
+            throw new IllegalArgumentException("collisionalFwhmNm must be 0 to 1000 times the spectrum's span ("
+                    + 1000 * span + " nm here), got " + shapes.collisionalFwhmNm());
+        }
+        if (shapes.naturalWidths() && nMax > Scene.MAX_N_WITH_NATURAL_WIDTHS) {
+            throw new IllegalArgumentException("natural widths are computed up to n = "
+                    + Scene.MAX_N_WITH_NATURAL_WIDTHS + "; lower nMax (" + nMax + ") or leave them out");
+        }
         Medium.parse(Objects.requireNonNull(medium, "medium"));
         Tier.fromId(Objects.requireNonNull(model, "model"));
         if (nMax < 2 || nMax > HydrogenLikeLines.MAX_N) {
@@ -97,8 +184,19 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      *         renderer auto, 10000 peak counts, Poisson noise with read noise 0
      */
     public static SynthesisParameters linear(double fromNm, double toNm, int pixels) {
-        return new SynthesisParameters(fromNm, toNm, pixels, List.of(), "vacuum", "qed", 30, "auto", 10_000, 0,
-                List.of(), List.of());
+        return new SynthesisParameters(fromNm, toNm, pixels, false, List.of(), "vacuum", "qed", 30, "auto", 10_000, 0,
+                List.of(), List.of(), Shapes.none(), Background.none());
+    }
+
+    /**
+     * @param fromNm first pixel edge, nm in the axis medium (as {@link #linear})
+     * @param toNm   last pixel edge, nm
+     * @param pixels number of pixels
+     * @return {@link #linear}'s defaults on a logarithmic grid, as {@code synth --grid log}
+     */
+    public static SynthesisParameters logarithmic(double fromNm, double toNm, int pixels) {
+        return new SynthesisParameters(fromNm, toNm, pixels, true, List.of(), "vacuum", "qed", 30, "auto", 10_000, 0,
+                List.of(), List.of(), Shapes.none(), Background.none());
     }
 
     /**
@@ -113,8 +211,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
         for (double v : coefficients) {
             c.add(v);
         }
-        return new SynthesisParameters(Double.NaN, Double.NaN, pixels, c, "vacuum", "qed", 30, "auto", 10_000, 0,
-                List.of(), List.of());
+        return new SynthesisParameters(Double.NaN, Double.NaN, pixels, false, c, "vacuum", "qed", 30, "auto", 10_000,
+                0, List.of(), List.of(), Shapes.none(), Background.none());
     }
 
     /**
@@ -122,8 +220,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      * @return a copy
      */
     public SynthesisParameters withMedium(String mediumSpec) {
-        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, mediumSpec, model, nMax, renderer, peakCounts,
-                readNoise, dataFiles, lineSets);
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, mediumSpec, model, nMax,
+                renderer, peakCounts, readNoise, dataFiles, lineSets, shapes, background);
     }
 
     /**
@@ -132,8 +230,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      * @return a copy
      */
     public SynthesisParameters withModel(String id, int n) {
-        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, id, n, renderer, peakCounts, readNoise,
-                dataFiles, lineSets);
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, id, n, renderer,
+                peakCounts, readNoise, dataFiles, lineSets, shapes, background);
     }
 
     /**
@@ -142,8 +240,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      * @return a copy
      */
     public SynthesisParameters withCounts(double counts, double read) {
-        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, model, nMax, renderer, counts, read,
-                dataFiles, lineSets);
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, model, nMax, renderer,
+                counts, read, dataFiles, lineSets, shapes, background);
     }
 
     /**
@@ -151,8 +249,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      * @return a copy
      */
     public SynthesisParameters withRenderer(String choice) {
-        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, model, nMax, choice, peakCounts,
-                readNoise, dataFiles, lineSets);
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, model, nMax, choice,
+                peakCounts, readNoise, dataFiles, lineSets, shapes, background);
     }
 
     /**
@@ -160,8 +258,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      * @return a copy
      */
     public SynthesisParameters withDataFiles(List<String> files) {
-        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, model, nMax, renderer, peakCounts,
-                readNoise, files, lineSets);
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, model, nMax, renderer,
+                peakCounts, readNoise, files, lineSets, shapes, background);
     }
 
     /**
@@ -170,23 +268,52 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, List<D
      * @return a copy
      */
     public SynthesisParameters withLineSets(List<String> sets) {
-        return new SynthesisParameters(fromNm, toNm, pixels, dispersion, medium, model, nMax, renderer, peakCounts,
-                readNoise, dataFiles, sets);
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, model, nMax, renderer,
+                peakCounts, readNoise, dataFiles, sets, shapes, background);
+    }
+
+    /**
+     * @param collisionalFwhmNm a Lorentzian FWHM in nm given to every line
+     * @param naturalWidths     whether natural widths are added
+     * @param components        whether fine-structure components are drawn one by one
+     * @return a copy, as {@code synth --collisional-width --natural-widths --components}
+     */
+    public SynthesisParameters withShapes(double collisionalFwhmNm, boolean naturalWidths, boolean components) {
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, model, nMax, renderer,
+                peakCounts, readNoise, dataFiles, lineSets, new Shapes(collisionalFwhmNm, naturalWidths, components),
+                background);
+    }
+
+    /**
+     * @param kind         none, flat or blackbody
+     * @param temperatureK the blackbody's temperature, or NaN for each scene's own
+     * @param counts       the continuum's brightest pixel's expected counts
+     * @return a copy, as {@code synth --continuum KIND --continuum-temperature K --continuum-counts C}
+     */
+    public SynthesisParameters withContinuum(String kind, double temperatureK, double counts) {
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, model, nMax, renderer,
+                peakCounts, readNoise, dataFiles, lineSets, shapes, new Background(kind, temperatureK, counts));
     }
 
     /** @return the grid */
     PixelGrid grid() {
-        return grid(fromNm, toNm, pixels, dispersion);
+        return grid(fromNm, toNm, pixels, logarithmic, dispersion);
     }
 
     /** The grid the fields describe, refusing what the engine or the command refuses. */
-    private static PixelGrid grid(double fromNm, double toNm, int pixels, List<Double> dispersion) {
+    private static PixelGrid grid(double fromNm, double toNm, int pixels, boolean logarithmic,
+            List<Double> dispersion) {
         if (dispersion.isEmpty()) {
-            PixelGrid grid = PixelGrid.linear(fromNm, toNm, pixels);
+            PixelGrid grid = logarithmic ? PixelGrid.logarithmic(fromNm, toNm, pixels)
+                    : PixelGrid.linear(fromNm, toNm, pixels);
             if (!(fromNm > 0)) {
                 throw new IllegalArgumentException("the grid must start above 0 nm, got " + fromNm);
             }
             return grid;
+        }
+        if (logarithmic) {
+            throw new IllegalArgumentException("a dispersion grid is given by its polynomial; it cannot be"
+                    + " logarithmic too");
         }
         if (!Double.isNaN(fromNm) || !Double.isNaN(toNm)) {
             throw new IllegalArgumentException("give a dispersion or fromNm/toNm, not both (fromNm and toNm must be"

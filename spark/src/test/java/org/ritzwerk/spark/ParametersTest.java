@@ -61,8 +61,32 @@ class ParametersTest {
                 () -> SynthesisParameters.dispersion(new double[] {500, 0.1, -1e-3}, 2048), "turns within the chip");
         assertEquals("give a dispersion or fromNm/toNm, not both (fromNm and toNm must be NaN with a dispersion)",
                 assertThrows(IllegalArgumentException.class, () -> new SynthesisParameters(500, 600, 100,
-                        List.of(500.0, 0.1), "air", "qed", 30, "auto", 1e4, 0, List.of(), List.of())).getMessage());
+                        false, List.of(500.0, 0.1), "air", "qed", 30, "auto", 1e4, 0, List.of(), List.of(),
+                        SynthesisParameters.Shapes.none(), SynthesisParameters.Background.none())).getMessage());
         assertEquals("lineSets names 'lamp-ne-i' twice; give each once", assertThrows(IllegalArgumentException.class,
                 () -> grid.withLineSets(List.of("lamp-ne-i", "lamp-ne-i "))).getMessage());
+    }
+
+    /** Line shapes, continua and log grids are refused where the command refuses them. */
+    @Test
+    void lineShapesAndContinuaAreCheckedAsTheCommandChecksThem() {
+        SynthesisParameters p = SynthesisParameters.logarithmic(640, 670, 100);
+        assertEquals("natural widths are computed up to n = 60; lower nMax (80) or leave them out",
+                assertThrows(IllegalArgumentException.class, () -> p.withModel("qed", 80).withShapes(0, true, false))
+                        .getMessage());
+        assertEquals(60, p.withModel("qed", 60).withShapes(0, true, false).nMax());
+        assertThrows(IllegalArgumentException.class, () -> p.withShapes(-1, false, false));
+        assertThrows(IllegalArgumentException.class, () -> p.withShapes(30_001, false, false), "beyond 1000 spans");
+        assertEquals("a continuum temperature is for a blackbody, above 0 and below 1e9 K (or NaN for each scene's"
+                + " temperature), got 3000.0", assertThrows(IllegalArgumentException.class,
+                        () -> p.withContinuum("flat", 3000, 100)).getMessage());
+        assertThrows(IllegalArgumentException.class, () -> p.withContinuum("grey", Double.NaN, 100));
+        assertThrows(IllegalArgumentException.class, () -> p.withContinuum("flat", Double.NaN, 0));
+        assertEquals("a dispersion grid is given by its polynomial; it cannot be logarithmic too",
+                assertThrows(IllegalArgumentException.class, () -> new SynthesisParameters(Double.NaN, Double.NaN,
+                        100, true, List.of(500.0, 0.1), "air", "qed", 30, "auto", 1e4, 0, List.of(), List.of(),
+                        SynthesisParameters.Shapes.none(), SynthesisParameters.Background.none())).getMessage());
+        SynthesisParameters all = p.withShapes(0.01, true, true).withContinuum("blackbody", Double.NaN, 100);
+        assertEquals(all, Setups.deserialise(Setups.serialise(all)));
     }
 }

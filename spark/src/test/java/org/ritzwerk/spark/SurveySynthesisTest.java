@@ -219,6 +219,61 @@ class SurveySynthesisTest {
         assertTrue(unknown.contains("lineSets lamp-unobtainium: no data set 'lamp-unobtainium'"), unknown);
     }
 
+    /**
+     * The command's other scene settings on Spark: a logarithmic grid ({@code --grid log}), a
+     * collisional width, natural widths and fine-structure components, and a continuum (blackbody
+     * at each scene's temperature, then at a fixed one, then flat), against the library's scene
+     * built as {@code synth} composes it, bit for bit.
+     */
+    @Test
+    void logGridsLineShapesAndContinuaAreTheLibrarysBitForBit() {
+        SparkSession spark = LocalSpark.session();
+        List<Row> scenes = List.of(
+                RowFactory.create("hot", new String[] {"H I", "He II"}, null, 20000.0, 1e21, 0.0, 30000.0, 1L),
+                RowFactory.create("warm", new String[] {"H I"}, null, 8000.0, null, 12e3, 20000.0, 2L));
+        DataContext data = DataContext.discoverDefault();
+        SynthesisParameters base = SynthesisParameters.logarithmic(640, 670, 600).withMedium("air")
+                .withModel("qed", 12).withCounts(5000, 3).withShapes(0.002, true, true);
+        for (SynthesisParameters p : List.of(base.withContinuum("blackbody", Double.NaN, 300),
+                base.withContinuum("blackbody", 3000, 50), base.withContinuum("flat", Double.NaN, 80))) {
+            List<Row> out = SurveySynthesis.of(p).synthesise(spark.createDataFrame(scenes, Schemas.SCENES))
+                    .collectAsList();
+            for (Row row : out) {
+                Row in = scenes.stream().filter(r -> r.getString(0).equals(row.getString(0))).findFirst()
+                        .orElseThrow();
+                double kelvin = in.getDouble(3);
+                Scene.Builder b = Scene.builder(PixelGrid.logarithmic(640, 670, 600)).medium(Medium.air())
+                        .instrument(Instrument.ofResolvingPower(in.getDouble(6))).naturalWidths(true).components(true)
+                        .renderer(Renderer.AUTO).temperature(kelvin).nMax(12).velocity(in.getDouble(5))
+                        .collisionalFwhm(0.002).peakCounts(5000);
+                if (!in.isNullAt(4)) {
+                    b.electronDensity(in.getDouble(4));
+                }
+                for (String name : (String[]) in.get(1)) {
+                    Species s = Species.parse(name);
+                    b.hydrogenLike(s, HydrogenLikeModel.of(data.nucleus(s), Tier.QED), 1.0);
+                }
+                double t = Double.isNaN(p.background().temperatureK()) ? kelvin : p.background().temperatureK();
+                java.util.function.DoubleUnaryOperator density = p.background().kind().equals("flat") ? nm -> 1
+                        : nm -> org.ritzwerk.engine.synth.Continuum.planckPhotonsPerWavelength(
+                                Medium.air().toVacuum(nm * 1e-9), t);
+                b.continuum(density, p.background().counts());
+                b.noise(3, in.getLong(7));
+                SyntheticSpectrum s = b.build().render(1);
+                String what = row.getString(0) + " " + p.background();
+                assertNull(row.getAs("failure"), what);
+                assertArrayEquals(s.counts(), toArray(row.getList(1)), what);
+                assertArrayEquals(s.expectedCounts(), toArray(row.getList(2)), what);
+                List<Row> lines = row.getList(3);
+                assertEquals(s.lines().size(), lines.size(), what);
+                for (int i = 0; i < lines.size(); i++) {
+                    assertEquals(s.lines().label(i), lines.get(i).getString(0));
+                    assertEquals(s.lines().lorentzFwhm(i), lines.get(i).getDouble(4));
+                }
+            }
+        }
+    }
+
     private static double[] toArray(List<Double> list) {
         double[] values = new double[list.size()];
         for (int i = 0; i < values.length; i++) {
