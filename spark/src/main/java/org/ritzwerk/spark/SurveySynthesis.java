@@ -117,9 +117,20 @@ public final class SurveySynthesis {
             this.grid = p.grid();
             this.medium = Medium.parse(p.medium());
             this.renderer = p.rendererChoice();
+            // Each list is read and checked here, once: a set that is unknown, gives no line an
+            // intensity or names an element without nuclear data fails the setup naming it, not
+            // every row.
             for (String set : p.lineSets()) {
                 try {
-                    lineLists.add(data.lineList(set));
+                    LineList list = data.lineList(set);
+                    Scene.builder(grid).lineList(list, data::nucleus);
+                    java.util.Set<Species> seen = new java.util.HashSet<>();
+                    for (int i = 0; i < list.size(); i++) {
+                        if (seen.add(list.species(i))) {
+                            data.nucleus(list.species(i));
+                        }
+                    }
+                    lineLists.add(list);
                 } catch (RuntimeException e) {
                     throw new IllegalArgumentException("lineSets " + set + ": " + e.getMessage(), e);
                 }

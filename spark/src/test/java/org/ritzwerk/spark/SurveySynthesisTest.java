@@ -170,7 +170,8 @@ class SurveySynthesisTest {
      * ...} composes it; a scene without species is a lamp scene only when line sets are given.
      */
     @Test
-    void lampScenesOnADispersionGridAreTheLibrarysBitForBit() {
+    void lampScenesOnADispersionGridAreTheLibrarysBitForBit(@org.junit.jupiter.api.io.TempDir java.nio.file.Path folder)
+            throws java.io.IOException {
         SparkSession spark = LocalSpark.session();
         List<Row> scenes = List.of(
                 RowFactory.create("lamp-1", new String[0], null, 400.0, null, 0.0, 4000.0, 1L),
@@ -217,6 +218,15 @@ class SurveySynthesisTest {
         String unknown = SurveyIdentificationTest.failure(() -> SurveySynthesis.of(GRID.withLineSets(
                 List.of("lamp-unobtainium"))).synthesise(spark.createDataFrame(none, Schemas.SCENES)).count());
         assertTrue(unknown.contains("lineSets lamp-unobtainium: no data set 'lamp-unobtainium'"), unknown);
+        // A list of an element without nuclear data (osmium: no mass for the Doppler width) fails the
+        // setup naming the list, as synth --lines refuses it.
+        java.nio.file.Path osmium = java.nio.file.Files.createTempFile(folder, "osmium", ".csv");
+        java.nio.file.Files.writeString(osmium, "# ritzwerk-lines 1\n# id: test-osmium\n# title: an invented line\n"
+                + "# source: invented for a test\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
+                + "# medium: air\nspecies,position,intensity\nOs I,650.0,100\n");
+        String noMass = SurveyIdentificationTest.failure(() -> SurveySynthesis.of(GRID.withLineSets(
+                List.of(osmium.toString()))).synthesise(spark.createDataFrame(none, Schemas.SCENES)).count());
+        assertTrue(noMass.contains("lineSets " + osmium + ": "), noMass);
     }
 
     /**
