@@ -269,9 +269,10 @@ public final class DispersionSolution {
 
     /**
      * @return the further factor the covariance was multiplied by so that the stated uncertainty
-     *         covers the uncertainty of an automatic degree choice over the fitted range (see
-     *         {@link DispersionFit}): 1 when one degree had all the support, for a fixed degree
-     *         and for stored coefficients
+     *         covers the uncertainty of an automatic degree choice over the fitted range, and, for
+     *         a degree chosen below 3, what the next degree's fit leaves open between the pairs
+     *         (see {@link DispersionFit}): 1 when one degree had all the support and the pairs fix
+     *         the shape, for a fixed degree and for stored coefficients
      */
     public double modelSelectionScale() {
         return modelSelectionScale;

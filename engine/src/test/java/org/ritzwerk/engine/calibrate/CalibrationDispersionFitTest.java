@@ -276,4 +276,35 @@ class CalibrationDispersionFitTest {
         // Box-Muller (common practice).
         return Math.sqrt(-2 * Math.log(1 - random.nextDouble())) * Math.cos(2 * Math.PI * random.nextDouble());
     }
+    /**
+     * Four lines between pixels 100 and 700 and two near 1850 on an invented spectrometer whose
+     * dispersion has a small cubic term (lambda = 400 + 0.1 p + 2e-6 p^2 + 1e-10 p^3 nm), centroids
+     * 0.02 pixel: AICc takes a quadratic, which in the gap (pixel 1510) is 0.42 pixel off, 7 of the
+     * uncertainties its own covariance states there; widened by what the cubic fit to the same
+     * pairs leaves open, the stated uncertainty covers the error. A fixed degree is the caller's
+     * choice and is not widened.
+     */
+    @Test
+    void aLowerDegreeStatesWhatTheNextDegreeLeavesOpenInAGap() {
+        double[] pixel = {100, 300, 500, 700, 1850, 1900};
+        double[] offset = {0.3, -0.6, 0.2, -0.4, 0.5, -0.1};
+        double[] sigma = new double[pixel.length];
+        double[] nm = new double[pixel.length];
+        for (int i = 0; i < pixel.length; i++) {
+            sigma[i] = 0.02;
+            double p = pixel[i] + offset[i] * sigma[i];
+            nm[i] = 400 + 0.1 * p + 2e-6 * p * p + 1e-10 * p * p * p;
+        }
+        DispersionSolution s = DispersionFit.automatic(3).fit(pixel, sigma, nm, null, Medium.air());
+        assertEquals(2, s.degree());
+        double p = 1510;
+        double dispersion = 0.1 + 4e-6 * p + 3e-10 * p * p;
+        double error = Math.abs(s.wavelengthAt(p) - (400 + 0.1 * p + 2e-6 * p * p + 1e-10 * p * p * p)) / dispersion;
+        double stated = s.wavelengthSigmaAt(p) / dispersion;
+        double unwidened = stated / Math.sqrt(s.modelSelectionScale());
+        assertTrue(error > 0.3, "error in the gap " + error + " px");
+        assertTrue(error > 3 * unwidened, "the quadratic's own covariance: " + unwidened + " px");
+        assertTrue(error < 2 * stated, "stated " + stated + " px against " + error);
+        assertEquals(1.0, DispersionFit.ofDegree(2).fit(pixel, sigma, nm, null, Medium.air()).modelSelectionScale());
+    }
 }

@@ -292,7 +292,9 @@ class CalibrationSweepTest {
      * seeds 1-400, 48 of the 51 have a stated standard uncertainty of at least 0.05 pixel (median
      * 0.10) where their error is largest. A caller who needs 0.1 pixel requires 0.05 and gets a
      * refusal there instead (seeds 1-400: 204 solved, 193 refused, 3 imprecise at 0.12 to 0.16
-     * pixel, none wrong; without the requirement 328, 21, 51 and 0).
+     * pixel, none wrong; without the requirement 328, 21, 51 and 0). With the end check and the
+     * next degree's widening of a quadratic or straight line (DispersionFit): 188 solved, 210
+     * refused, 2 imprecise, none wrong.
      */
     @Test
     void aRequiredPrecisionRefusesWhatTheDataCannotGive() {
@@ -315,9 +317,10 @@ class CalibrationSweepTest {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6,
                 Calibrator.defaults().withRequiredPrecision(0.05));
         assertEquals(0, outcome.wrong() + outcome.imprecise(), outcome.toString());
-        // 15 solved (16 before the end check, which also refuses seed 1: its last line is checked by
-        // the others only to 0.63 pixel).
-        assertTrue(outcome.solved() >= 15, outcome.toString());
+        // 14 solved (16 before the end check, which also refuses seed 1: its last line is checked by
+        // the others only to 0.63 pixel; 15 before a quadratic's stated uncertainty took in what
+        // the next degree leaves open, which states seed 24's right quadratic at 0.17 pixel).
+        assertTrue(outcome.solved() >= 14, outcome.toString());
     }
 
     @Test
