@@ -482,12 +482,13 @@ public final class LampMatcher {
 
     /**
      * The probability that chance alone puts at least as many strong peaks within the precise
-     * tolerance of a line, beyond the {@value #FITTED_PAIRS} pairs any polynomial can be made to
-     * meet: Poisson with the candidate's expected chance matches, P(X &gt;= m) = P(m, lambda), the
+     * tolerance of a line, beyond the pairs the polynomial can be made to meet (its free pairs:
+     * {@value #FITTED_PAIRS} for a quadratic, or a cubic a quadratic does as well as, else 4):
+     * Poisson with the candidate's expected chance matches, P(X &gt;= m) = P(m, lambda), the
      * regularised lower incomplete gamma function (common practice).
      */
     static double chanceProbability(Candidate c) {
-        int beyondFit = c.preciseMatched - FITTED_PAIRS;
+        int beyondFit = c.preciseMatched - c.freePairs;
         if (beyondFit <= 0) {
             return 1;
         }
@@ -551,7 +552,7 @@ public final class LampMatcher {
      * how many chance alone would put there, and the direction.
      */
     record Candidate(double[] coefficients, int strongMatched, double score, int preciseMatched,
-            double preciseTolerance, double chance, int sign) {
+            double preciseTolerance, double chance, int sign, int freePairs) {
     }
 
     /** A refined winner: its figures after refinement, and the pairs. */
@@ -1095,7 +1096,50 @@ public final class LampMatcher {
                 double slope = Math.abs(PolynomialLeastSquares.derivative(a, x) / half);
                 chance += Math.min(1, 2 * precise * lineDensity(PolynomialLeastSquares.evaluate(a, x), slope));
             }
-            return new Candidate(a, strongMatched, score, preciseMatched, precise, chance, sign);
+            return new Candidate(a, strongMatched, score, preciseMatched, precise, chance, sign,
+                    freePairs(a, lineOf, precise, preciseMatched));
+        }
+
+        /**
+         * How many of the precise pairs the polynomial could have been made to meet whatever the
+         * lines: its coefficients' count, unless a polynomial of degree 2 (offset, slope and
+         * curvature) meets every precise pair within the same distance, in which case 3. A cubic
+         * meets four pairs exactly, so with it only the pairs beyond four are evidence (a zinc and
+         * cadmium spectrum was paired with neon and argon lines by a cubic through seven peaks
+         * and accepted under a lowered share, 3,587 pixels off); where a quadratic does as well the
+         * cubic term is not what made the pairs meet.
+         */
+        private int freePairs(double[] a, int[] lineOf, double precise, int preciseMatched) {
+            if (a.length <= FITTED_PAIRS) {
+                return FITTED_PAIRS;
+            }
+            int n = centre.length;
+            double[] x = new double[n];
+            double[] nm = new double[n];
+            boolean[] use = new boolean[n];
+            int used = 0;
+            for (int k = 0; k < n; k++) {
+                x[k] = (centre[k] - mid) / half;
+                if (lineOf[k] >= 0) {
+                    nm[k] = windowNm[lineOf[k]];
+                    use[k] = Math.abs(residualPixels(a, centre[k], nm[k])) <= precise;
+                    used += use[k] ? 1 : 0;
+                }
+            }
+            if (used < FITTED_PAIRS + 1) {
+                return a.length;
+            }
+            PolynomialLeastSquares.Solution quadratic = PolynomialLeastSquares.fit(x, nm, null, use, 2);
+            if (quadratic == null) {
+                return a.length;
+            }
+            int met = 0;
+            for (int k = 0; k < n; k++) {
+                if (use[k] && Math.abs(residualPixels(quadratic.coefficients(), centre[k], nm[k])) <= precise) {
+                    met++;
+                }
+            }
+            return met >= preciseMatched ? FITTED_PAIRS : a.length;
         }
 
         /**

@@ -24,8 +24,8 @@ import org.ritzwerk.engine.calibrate.Peaks;
  * anywhere between its first and last fitted line; the job refuses instead. An accepted run off
  * by more than 0.1 pixel must say so: its error stays within five of the solution's own stated
  * standard uncertainties. The share solved to
- * better than 0.1 pixel is held at what the matcher reaches today: 25 of these 30 (23 before the
- * second-order images). Full sweeps
+ * better than 0.1 pixel is held at what the matcher reaches today: 24 of these 30 (23 before the
+ * second-order images, 25 before the chance test counted the four pairs a cubic meets by itself). Full sweeps
  * (run {@link CalibrationSweep#main} with {@code 1 100 0.6}, {@code 101 100 0.6}, ...), solved /
  * refused / accepted with 0.1 to 1 pixel error (a blended or edge line pulling the cubic) / worse:
  * seeds 1 to 100 84 / 7 / 9 / 0, seeds 101 to 200 85 / 4 / 11 / 0, 201 to 300 72 / 9 / 19 / 0,
@@ -76,7 +76,7 @@ class CalibrationSweepTest {
     void curvedDispersionsAreSolvedOrRefusedNeverWrong() {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6, Calibrator.defaults());
         assertEquals(0, outcome.wrong(), outcome.toString());
-        assertTrue(outcome.solved() >= 25, outcome.toString());
+        assertTrue(outcome.solved() >= 24, outcome.toString());
         // Where a solution is off by 0.1 to 1 pixel, it says so: the error stays within five of its
         // own stated standard uncertainties.
         assertTrue(outcome.worstImpreciseSigmas() <= 5, outcome.toString());
@@ -132,11 +132,15 @@ class CalibrationSweepTest {
      *       take part in the final one-to-one assignment.</li>
      * </ul>
      * With images switched off ({@code withSecondOrder(false)}, as for a spectrometer with an
-     * order-sorting filter) each is refused, or for 107 imprecise, as before.
+     * order-sorting filter) each is refused, or for 107 imprecise, as before. Seeds 17, 38 and 253
+     * are refused again since the chance test counts as evidence only the pairs beyond the four a
+     * cubic meets by itself, where a quadratic cannot meet them as well (0.042, 0.057 and 0.014
+     * expected by chance in all): right pairings, but not told from chance at the 0.01 the test
+     * accepts.
      */
     @Test
     void secondOrderGhostsAreExplainedByTheLamp() {
-        for (long seed : new long[] {17, 24, 38, 62, 107, 253, 373}) {
+        for (long seed : new long[] {24, 62, 107, 373}) {
             CalibrationSweep.Outcome outcome = CalibrationSweep.run(seed, 1, 0.6, Calibrator.defaults());
             assertEquals(1, outcome.solved(), outcome.toString());
             CalibrationSweep.Outcome firstOrderOnly = CalibrationSweep.run(seed, 1, 0.6,

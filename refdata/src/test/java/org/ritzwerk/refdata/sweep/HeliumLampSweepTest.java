@@ -43,18 +43,23 @@ import org.ritzwerk.refdata.DataLines;
  * spectrometer with an order-sorting filter): 10 solved, 1 at 0.17 pixel, 5 refused, of which 4
  * are accepted with a prior. No run, with or without a prior, is accepted with
  * an error beyond 1 pixel or beyond three of its own stated standard uncertainties.
+ *
+ * <p>Since the chance test counts as evidence only the pairs beyond the four a cubic meets by
+ * itself (where a quadratic cannot meet them as well), fewer of the refused runs pass with a
+ * prior: 2 of the 6 (both at 0.15 to 0.25 pixel, within their stated uncertainties), and without
+ * images 2 of the 5 (one solved). The runs solved without a prior are the same 10.
  */
 class HeliumLampSweepTest {
 
     @Test
     void heliumLampsAreSolvedOrRefusedNeverWrong() {
-        sweep(Calibrator.defaults(), 10, 3);
+        sweep(Calibrator.defaults(), 10, 2);
     }
 
     /** A spectrometer with an order-sorting filter: the matcher told there are no second-order images. */
     @Test
     void withoutSecondOrderImagesFewerRunsAreRefused() {
-        sweep(Calibrator.defaults().withSecondOrder(false), 10, 4);
+        sweep(Calibrator.defaults().withSecondOrder(false), 10, 2);
     }
 
     /**
