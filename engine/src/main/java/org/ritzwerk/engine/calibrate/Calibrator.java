@@ -407,6 +407,7 @@ public final class Calibrator {
         }
         double chi2 = solution.reducedChiSquare();
         checkFitWhereTheDegreeIsCapped(problem.source(), solution);
+        checkWithinPrior(problem, solution);
         if (chi2 > maxChi2) {
             String cause = degree > 0
                     ? String.format(Locale.ROOT, "the pairs disagree with the fixed degree-%d polynomial by far more "
@@ -425,38 +426,90 @@ public final class Calibrator {
 
     /**
      * Below this chance probability of a chi-square as large as the fit's, for pairs that follow
-     * the polynomial with their stated uncertainties, a fit whose degree the pair count capped is
-     * refused ({@link #checkFitWhereTheDegreeIsCapped}).
+     * the polynomial with their stated uncertainties, a fit with few degrees of freedom, or whose
+     * degree the pair count capped, is refused ({@link #checkFitWhereTheDegreeIsCapped}).
      */
     static final double LACK_OF_FIT_PROBABILITY = 1e-3;
 
+    /** At most this many degrees of freedom, a fit of any degree must pass the lack-of-fit test. */
+    static final int FEW_DEGREES_OF_FREEDOM = 3;
+
     /**
-     * When the degree is chosen automatically but too few pairs remain to try the next one (AICc
-     * needs d + 4 pairs for degree d + 1), nothing can show that the chosen polynomial is too
-     * simple but its chi-square. A straight line through four pairs of a curved dispersion was
-     * accepted with a reduced chi-square of 11.7 (2 degrees of freedom, well under the general
-     * limit) and was 5.5 pixels off at its last pair while stating 0.27. So such a fit must pass a
-     * lack-of-fit test: the chance of a chi-square at least as large, for pairs that follow it with
-     * their stated uncertainties, Q(dof / 2, chi^2 / 2) (the chi-square distribution's upper tail,
-     * common practice), must be at least {@value #LACK_OF_FIT_PROBABILITY}.
+     * A fit with few degrees of freedom must pass a lack-of-fit test: the chance of a chi-square
+     * at least as large, for pairs that follow it with their stated uncertainties,
+     * Q(dof / 2, chi^2 / 2) (the chi-square distribution's upper tail, common practice), must be
+     * at least {@value #LACK_OF_FIT_PROBABILITY}. It applies when the degree is chosen
+     * automatically but too few pairs remain to try the next one (AICc needs d + 4 pairs for
+     * degree d + 1), and to any fit, fixed degree too, with at most
+     * {@value #FEW_DEGREES_OF_FREEDOM} degrees of freedom, where the general limit on the reduced
+     * chi-square (25) stands for a probability below 1e-15 and so never fires on evidence. Nothing
+     * else can show there that a pair is wrong or the polynomial too simple: a straight line through
+     * four pairs of a curved dispersion was accepted with a reduced chi-square of 11.7 (2 degrees of
+     * freedom), 5.5 pixels off at its last pair while stating 0.27; a fixed cubic through six pairs,
+     * one of them a zinc peak paired with a cadmium line, with 12.7, 4.3 pixels off while stating
+     * 0.08.
      */
     void checkFitWhereTheDegreeIsCapped(String source, DispersionSolution solution) {
         int dof = solution.degreesOfFreedom();
         int d = solution.degree();
-        if (degree > 0 || d >= maxDegree || solution.usedCount() >= d + 4 || dof <= 0
-                || !Double.isFinite(solution.chiSquare())) {
+        boolean capped = degree <= 0 && d < maxDegree && solution.usedCount() < d + 4;
+        if (dof <= 0 || !(capped || dof <= FEW_DEGREES_OF_FREEDOM) || !Double.isFinite(solution.chiSquare())) {
             return;
         }
         double probability = RegularizedGamma.Q.value(dof / 2.0, solution.chiSquare() / 2);
-        if (probability < LACK_OF_FIT_PROBABILITY) {
-            throw new CalibrationException(CalibrationException.IMPLAUSIBLE_FIT, String.format(Locale.ROOT,
-                    "%s: the %d fitted pairs disagree with the degree-%d polynomial (reduced chi-square %.3g with %d "
-                            + "degrees of freedom: probability %.2g for pairs that follow it, below %.2g), and too "
-                            + "few pairs remain to try degree %d (it needs %d): the dispersion is more curved than the "
-                            + "pairs can show, or a pairing is wrong. More lamp lines in the window, a prior, or a "
-                            + "degree fixed one higher (if the pairing is known to be right) would settle it",
-                    source, solution.usedCount(), d, solution.reducedChiSquare(), dof, probability,
-                    LACK_OF_FIT_PROBABILITY, d + 1, d + 4));
+        if (probability >= LACK_OF_FIT_PROBABILITY) {
+            return;
+        }
+        String why = degree > 0
+                ? String.format(Locale.ROOT, "a pairing is wrong, or the dispersion is more curved than the fixed"
+                        + " degree %d can follow. More lamp lines in the window, or a degree chosen automatically,"
+                        + " would settle it", d)
+                : capped ? String.format(Locale.ROOT, "too few pairs remain to try degree %d (it needs %d): the"
+                        + " dispersion is more curved than the pairs can show, or a pairing is wrong. More lamp lines"
+                        + " in the window, or a degree fixed one higher (if the pairing is known to be right), would"
+                        + " settle it", d + 1, d + 4)
+                : "a pairing is wrong, or the dispersion is more curved than the pairs can show. More lamp lines in"
+                        + " the window, or a degree fixed one higher (if the pairing is known to be right), would"
+                        + " settle it";
+        throw new CalibrationException(CalibrationException.IMPLAUSIBLE_FIT, String.format(Locale.ROOT,
+                "%s: the %d fitted pairs disagree with the degree-%d polynomial (reduced chi-square %.3g with %d "
+                        + "degrees of freedom: probability %.2g for pairs that follow it, below %.2g); %s",
+                source, solution.usedCount(), d, solution.reducedChiSquare(), dof, probability,
+                LACK_OF_FIT_PROBABILITY, why));
+    }
+
+    /**
+     * Refuses a fitted solution that sees wavelengths or dispersions the prior excludes (with the
+     * matcher's margins: 2 % of the range, 5 % of the dispersion bound): the matcher keeps its
+     * search inside the prior, but the final fit, of another degree or with other pairs, can leave
+     * it (a fixed cubic through a wrong pair ran to 685 nm under a prior ending at 670 nm).
+     */
+    private void checkWithinPrior(CalibrationProblem problem, DispersionSolution solution) {
+        LampMatcher.Prior prior = problem.prior();
+        if (prior.equals(LampMatcher.Prior.none())) {
+            return;
+        }
+        double margin = prior.margin();
+        double slack = 0.05 * Math.max(Math.abs(prior.minDispersion()), Math.abs(prior.maxDispersion()));
+        int pixels = problem.pixels();
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        boolean dispersionOutside = false;
+        for (int s = 0; s <= 64; s++) {
+            double p = (pixels - 1) * s / 64.0;
+            double nm = solution.wavelengthAt(p);
+            lo = Math.min(lo, nm);
+            hi = Math.max(hi, nm);
+            double d = solution.dispersionAt(p);
+            dispersionOutside |= d < prior.minDispersion() - slack || d > prior.maxDispersion() + slack;
+        }
+        if (lo < prior.minWavelengthNm() - margin || hi > prior.maxWavelengthNm() + margin || dispersionOutside) {
+            throw new CalibrationException(CalibrationException.OUTSIDE_PRIOR, String.format(Locale.ROOT,
+                    "%s: the fitted solution (degree %d, %d lines) runs from %.2f to %.2f nm over pixels 0 to %d "
+                            + "(%.4g to %.4g nm/pixel), outside the prior (%s): the prior or a pairing is wrong; "
+                            + "widen the prior if the solution is right",
+                    problem.source(), solution.degree(), solution.usedCount(), lo, hi, pixels - 1,
+                    solution.dispersionAt(0), solution.dispersionAt(pixels - 1), prior));
         }
     }
 

@@ -220,7 +220,9 @@ public final class LampMatcher {
                     : Double.isInfinite(maxWavelengthNm)
                             ? String.format(Locale.ROOT, "from %.6g nm up", minWavelengthNm)
                             : String.format(Locale.ROOT, "%.6g to %.6g nm", minWavelengthNm, maxWavelengthNm);
-            return String.format(Locale.ROOT, "%s, %.6g to %.6g nm/pixel", range, minDispersion, maxDispersion);
+            // The open dispersion bounds of none() are no one's statement: not printed.
+            return minDispersion == -1000 && maxDispersion == 1000 ? range + ", any dispersion"
+                    : String.format(Locale.ROOT, "%s, %.6g to %.6g nm/pixel", range, minDispersion, maxDispersion);
         }
     }
 

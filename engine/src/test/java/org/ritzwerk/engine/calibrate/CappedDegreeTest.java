@@ -51,13 +51,20 @@ class CappedDegreeTest {
         assertTrue(e.getMessage().contains("too few pairs remain to try degree 2 (it needs 5)"), e.getMessage());
     }
 
+    /**
+     * A straight dispersion passes. A fixed degree with two degrees of freedom is tested too (the
+     * general limit of 25 never fires there on evidence), with a message for a fixed degree.
+     */
     @Test
-    void aStraightDispersionPassesAndAFixedDegreeIsTheUsersChoice() {
+    void aStraightDispersionPassesAndAFixedDegreeWithFewDegreesOfFreedomIsTestedToo() {
         DispersionSolution straight = straightLineThrough(0);
         assertTrue(Math.exp(-straight.chiSquare() / 2) > Calibrator.LACK_OF_FIT_PROBABILITY);
         assertDoesNotThrow(() -> Calibrator.defaults().checkFitWhereTheDegreeIsCapped("four.csv", straight));
-        DispersionSolution curved = straightLineThrough(2e-7);
         assertDoesNotThrow(() -> Calibrator.defaults().withDegree(1).checkFitWhereTheDegreeIsCapped("four.csv",
-                curved));
+                straight));
+        DispersionSolution curved = straightLineThrough(2e-7);
+        CalibrationException e = assertThrows(CalibrationException.class, () -> Calibrator.defaults().withDegree(1)
+                .checkFitWhereTheDegreeIsCapped("four.csv", curved));
+        assertTrue(e.getMessage().contains("more curved than the fixed degree 1 can follow"), e.getMessage());
     }
 }
