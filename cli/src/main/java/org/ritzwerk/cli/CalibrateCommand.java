@@ -170,6 +170,12 @@ final class CalibrateCommand implements Callable<Integer> {
         CalibrationProblem problem = CalibrationProblem.builder(spectrum.counts()).sigmas(spectrum.sigmas())
                 .lamp(lampSet(AxisMedium.of(medium))).prior(prior()).source(spectrum.source()).build();
         Calibration calibration = calibrator().calibrate(problem);
+        if (!Double.isNaN(calibration.inferredSaturationLevel())) {
+            spec.commandLine().getErr().println("note: several pixels hold exactly the exposure's highest count, "
+                    + OptionRules.show(calibration.inferredSaturationLevel()) + ": the exposure looks clipped there, so"
+                    + " that is taken as the saturation level (peaks reaching it are centred from their wings; give"
+                    + " --saturation to set the level)");
+        }
         DispersionSolution solution = calibration.solution();
         String description = calibration.description();
         switch (format) {

@@ -24,9 +24,20 @@ public final class Calibration {
     private final double[] largestSigma;
     /** {low end's check, its pixel, high end's check, its pixel}; see {@link #endConfirmationPixels}. */
     private final double[] endConfirmation;
+    private final double inferredSaturation;
+
+    /**
+     * @return the saturation level taken from the exposure itself when none was given (its highest
+     *         count, held by several pixels exactly, as a clipped exposure shows it), or NaN when
+     *         a level was given or the exposure does not look clipped
+     */
+    public double inferredSaturationLevel() {
+        return inferredSaturation;
+    }
 
     Calibration(CalibrationProblem problem, Calibrator settings, Peaks peaks, LampMatch firstMatch, LampMatch match,
-            LampMatch saturatedPairs, DispersionSolution solution) {
+            LampMatch saturatedPairs, DispersionSolution solution, double inferredSaturation) {
+        this.inferredSaturation = inferredSaturation;
         this.saturatedPairs = saturatedPairs;
         this.problem = problem;
         this.settings = settings;

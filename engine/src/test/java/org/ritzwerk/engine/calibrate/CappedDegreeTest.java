@@ -67,4 +67,12 @@ class CappedDegreeTest {
                 .checkFitWhereTheDegreeIsCapped("four.csv", curved));
         assertTrue(e.getMessage().contains("more curved than the fixed degree 1 can follow"), e.getMessage());
     }
+
+    /** An exposure looks clipped when three or more pixels hold exactly its highest count. */
+    @Test
+    void aClippingLevelIsTakenFromRepeatedMaximaOnly() {
+        assertEquals(4095.0, Calibrator.inferredSaturation(new double[] {10, 4095, 4095, 300, 4095, 12}));
+        assertTrue(Double.isNaN(Calibrator.inferredSaturation(new double[] {10, 4095, 4095, 300, 4094.5, 12})));
+        assertTrue(Double.isNaN(Calibrator.inferredSaturation(new double[] {0, 0, 0, 0})), "all zero: no level");
+    }
 }
