@@ -35,11 +35,10 @@ final class LineSets {
             if (ReferenceDataException.WRONG_KIND.equals(e.code())) {
                 throw new OptionException(option + " " + e.getMessage(), e);
             }
-            // A name that looks like a file (a path or an extension) is most likely a missing file.
+            // A name that looks like a file is a missing file (the context says so): name the option.
             if (ReferenceDataException.UNKNOWN_DATA_SET.equals(e.code())
-                    && (set.contains("/") || set.contains("\\") || set.matches(".*\\.(csv|json|txt)"))) {
-                throw new OptionException(option + " " + set + ": no such file (nor a data set of that name;"
-                        + " 'ritzwerk data' lists the sets)", e);
+                    && e.getMessage().startsWith(set + ": no such file")) {
+                throw new OptionException(option + " " + e.getMessage(), e);
             }
             throw e;
         }

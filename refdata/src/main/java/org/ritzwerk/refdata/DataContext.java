@@ -459,7 +459,18 @@ public final class DataContext {
         if (path != null && Files.exists(path)) {
             return UserFiles.read(path, this::nuclearData).set();
         }
-        return registry.load(idOrPath);
+        try {
+            return registry.load(idOrPath);
+        } catch (ReferenceDataException e) {
+            // A name that looks like a file (a folder in it, or a file extension) is most likely a
+            // missing file: say so, not only that no data set has that id.
+            if (ReferenceDataException.UNKNOWN_DATA_SET.equals(e.code()) && (idOrPath.contains("/")
+                    || idOrPath.contains("\\") || idOrPath.matches(".*\\.(csv|json|txt)"))) {
+                throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, idOrPath
+                        + ": no such file (nor a data set of that name; 'ritzwerk data' lists the sets)");
+            }
+            throw e;
+        }
     }
 
     /**

@@ -75,11 +75,12 @@ final class Fields implements Serializable {
             if (!sameType(type, fields[k].dataType())) {
                 String wanted = fields[k].dataType().simpleString();
                 boolean numeric = wanted.contains("double") && type.simpleString().matches(
-                        "(array<)?(tinyint|smallint|int|bigint|float|decimal.*)>?");
+                        "(array<)?(tinyint|smallint|int|bigint|float|decimal.*)>?")
+                        || wanted.matches("int|bigint") && type.simpleString().matches("tinyint|smallint|int|bigint");
                 throw new SparkRowException(SparkRowException.BAD_SCHEMA, null, fields[k].name(), "the " + table
-                        + " table has it as " + type.simpleString() + ", not " + wanted + (numeric ? " (JSON reads"
-                        + " whole numbers as integers: cast it, col(\"" + present.get(at) + "\").cast(\"" + wanted
-                        + "\"))" : ""));
+                        + " table has it as " + type.simpleString() + ", not " + wanted + (numeric ? " (JSON and CSV"
+                        + " readers choose their own number types: cast it, col(\"" + present.get(at) + "\").cast(\""
+                        + wanted + "\"))" : ""));
             }
             index[k] = at;
             columns[k] = present.get(at);

@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
+import java.util.Objects;
 import java.util.function.Function;
 import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.api.java.function.FlatMapFunction;
@@ -46,6 +47,24 @@ final class Setups {
      * @param <K>    the key's type
      * @throws IllegalArgumentException naming the repeated entry
      */
+    /**
+     * @param field  the parameter's name, for the message
+     * @param values a list of a parameter record
+     * @throws IllegalArgumentException naming the first null or blank element
+     * @throws NullPointerException     when the list itself is null
+     */
+    static void requireNoNull(String field, List<?> values) {
+        Objects.requireNonNull(values, field);
+        for (int i = 0; i < values.size(); i++) {
+            if (values.get(i) == null) {
+                throw new IllegalArgumentException(field + " element " + i + " is null");
+            }
+            if (values.get(i) instanceof String text && text.isBlank()) {
+                throw new IllegalArgumentException(field + " element " + i + " is blank");
+            }
+        }
+    }
+
     static <K> void requireDistinct(String field, List<String> values, Function<String, K> key) {
         java.util.Map<K, String> seen = new java.util.HashMap<>();
         for (String value : values) {

@@ -161,7 +161,7 @@ public final class SurveyCalibration {
         InternalRow calibrate(Fields f, InternalRow row) {
             String id = f.id(row);
             double[] counts = f.doubles(row, id, 1, -1, Double.NEGATIVE_INFINITY, false);
-            double[] sigmas = f.optionalDoubles(row, id, 2, counts.length, 0, false);
+            double[] sigmas = f.optionalDoubles(row, id, 2, counts.length, 0, true);
             int pixels = counts.length;
             Calibration calibration;
             try {

@@ -58,9 +58,14 @@ public final class SurveySynthesis {
 
     /**
      * @param parameters the grid and the settings shared by every scene
-     * @return the operation
+     * @return the operation; the data context and line sets are read once here on the driver as a
+     *         check
+     * @throws IllegalArgumentException naming a line set that is unknown or cannot be drawn
      */
     public static SurveySynthesis of(SynthesisParameters parameters) {
+        // The data context and line sets are read once here on the driver as a check, so a set that
+        // is unknown or unusable fails before any job, not in every task.
+        new Setup(parameters);
         return new SurveySynthesis(parameters, true);
     }
 
@@ -160,7 +165,8 @@ public final class SurveySynthesis {
         InternalRow synthesise(Fields f, InternalRow row) {
             String id = f.id(row);
             String[] names = f.strings(row, id, 1, !lineLists.isEmpty());
-            double[] abundances = f.optionalDoubles(row, id, 2, names.length, 0, true);
+            // A lamp scene (no species) may give an empty abundance list, as long as its species.
+            double[] abundances = names.length == 0 ? null : f.optionalDoubles(row, id, 2, names.length, 0, true);
             double temperature = f.number(row, id, 3);
             double density = f.optionalNumber(row, id, 4);
             double velocity = f.number(row, id, 5);
@@ -171,7 +177,7 @@ public final class SurveySynthesis {
                 Species species;
                 try {
                     species = Species.parse(name.strip());
-                } catch (IllegalArgumentException e) {
+                } catch (RuntimeException e) {
                     throw new SparkRowException(SparkRowException.BAD_FIELD, id, "species", e.getMessage());
                 }
                 if (!named.add(species)) {
@@ -191,9 +197,9 @@ public final class SurveySynthesis {
                 throw new SparkRowException(SparkRowException.BAD_FIELD, id, "velocity_m_s", "is " + velocity
                         + "; its magnitude must be below a tenth of the speed of light");
             }
-            if (!(resolvingPower > 0)) {
+            if (!(resolvingPower >= 1 && resolvingPower <= 1e9)) {
                 throw new SparkRowException(SparkRowException.BAD_FIELD, id, "resolving_power", "is "
-                        + resolvingPower + "; it must be above 0");
+                        + resolvingPower + "; it must be 1 to 1e9, as synth --resolving-power takes it");
             }
             Scene.Builder builder = Scene.builder(grid).medium(medium).naturalWidths(p.shapes().naturalWidths())
                     .components(p.shapes().components()).renderer(renderer).nMax(p.nMax()).peakCounts(p.peakCounts())

@@ -57,6 +57,10 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
 
     private static final long serialVersionUID = 1L;
 
+    /** The most pixels a grid may have, as {@code synth --pixels} allows. */
+    public static final int MAX_PIXELS = 50_000_000;
+    private static final double MAX_COUNTS = 1e15;
+
     /**
      * Line-shape settings of {@code synth}.
      *
@@ -115,6 +119,10 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
             if (!(counts > 0 && counts <= 1e15)) {
                 throw new IllegalArgumentException("continuum counts must be above 0 and at most 1e15, got " + counts);
             }
+            if (kind.equals("none") && counts != 100) {
+                throw new IllegalArgumentException("continuum counts are for a flat or blackbody continuum; with"
+                        + " none leave the default, 100, got " + counts);
+            }
         }
 
         /** @return no continuum */
@@ -143,6 +151,19 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
      * @param background as above
      */
     public SynthesisParameters {
+        Setups.requireNoNull("dataFiles", dataFiles);
+        Setups.requireNoNull("lineSets", lineSets);
+        Setups.requireNoNull("dispersion", dispersion);
+        if (pixels < 2 || pixels > MAX_PIXELS) {
+            throw new IllegalArgumentException("pixels must be 2 to " + MAX_PIXELS + ", as synth --pixels takes them,"
+                    + " got " + pixels);
+        }
+        if (fromNm > toNm) {
+            // Either order, as synth --from and --to take them.
+            double lower = toNm;
+            toNm = fromNm;
+            fromNm = lower;
+        }
         dataFiles = List.copyOf(dataFiles);
         Setups.requireDistinct("dataFiles", dataFiles, String::strip);
         lineSets = List.copyOf(lineSets);
@@ -165,12 +186,16 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
         if (nMax < 2 || nMax > HydrogenLikeLines.MAX_N) {
             throw new IllegalArgumentException("nMax must be 2 to " + HydrogenLikeLines.MAX_N + ", got " + nMax);
         }
-        Renderer.valueOf(Objects.requireNonNull(renderer, "renderer").toUpperCase(Locale.ROOT));
-        if (!(peakCounts > 0) || Double.isInfinite(peakCounts)) {
-            throw new IllegalArgumentException("peakCounts must be finite and positive, got " + peakCounts);
+        if (!List.of("auto", "exact", "fast").contains(Objects.requireNonNull(renderer, "renderer")
+                .toLowerCase(Locale.ROOT))) {
+            throw new IllegalArgumentException("renderer must be auto, exact or fast, got '" + renderer + "'");
         }
-        if (!Double.isNaN(readNoise) && !(readNoise >= 0 && Double.isFinite(readNoise))) {
-            throw new IllegalArgumentException("readNoise must be finite and not negative, or NaN, got " + readNoise);
+        // Counts stay exact as whole numbers in a double up to 2^53: the command's cap of 1e15.
+        if (!(peakCounts > 0 && peakCounts <= MAX_COUNTS)) {
+            throw new IllegalArgumentException("peakCounts must be above 0 and at most 1e15, got " + peakCounts);
+        }
+        if (!Double.isNaN(readNoise) && !(readNoise >= 0 && readNoise <= MAX_COUNTS)) {
+            throw new IllegalArgumentException("readNoise must be 0 to 1e15, or NaN for no noise, got " + readNoise);
         }
     }
 
@@ -207,6 +232,10 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
      * @return the {@code synth} command's defaults on that grid, as {@link #linear}
      */
     public static SynthesisParameters dispersion(double[] coefficients, int pixels) {
+        if (coefficients.length < 2) {
+            throw new IllegalArgumentException("a dispersion needs at least c0 and c1, got " + coefficients.length
+                    + " coefficient" + (coefficients.length == 1 ? "" : "s"));
+        }
         List<Double> c = new java.util.ArrayList<>();
         for (double v : coefficients) {
             c.add(v);

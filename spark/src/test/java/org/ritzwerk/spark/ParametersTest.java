@@ -89,4 +89,27 @@ class ParametersTest {
         SynthesisParameters all = p.withShapes(0.01, true, true).withContinuum("blackbody", Double.NaN, 100);
         assertEquals(all, Setups.deserialise(Setups.serialise(all)));
     }
+
+    /** Synthesis parameters refuse what the synth command refuses, with messages in its terms. */
+    @Test
+    void synthesisParametersAreCheckedAsTheCommandChecksThem() {
+        SynthesisParameters p = SynthesisParameters.linear(640, 670, 100);
+        assertEquals(p, SynthesisParameters.linear(670, 640, 100), "either order, as --from and --to");
+        assertEquals("renderer must be auto, exact or fast, got 'bogus'", assertThrows(IllegalArgumentException.class,
+                () -> p.withRenderer("bogus")).getMessage());
+        assertEquals("fast", p.withRenderer("fast").renderer());
+        assertEquals("lineSets element 1 is null", assertThrows(IllegalArgumentException.class,
+                () -> p.withLineSets(java.util.Arrays.asList("lamp-ne-i", null))).getMessage());
+        assertEquals("lineSets element 0 is blank", assertThrows(IllegalArgumentException.class,
+                () -> p.withLineSets(List.of(" "))).getMessage());
+        assertEquals("pixels must be 2 to 50000000, as synth --pixels takes them, got 1000000000",
+                assertThrows(IllegalArgumentException.class, () -> SynthesisParameters.linear(1, 2, 1_000_000_000))
+                        .getMessage());
+        assertEquals("a dispersion needs at least c0 and c1, got 0 coefficients", assertThrows(
+                IllegalArgumentException.class, () -> SynthesisParameters.dispersion(new double[0], 100)).getMessage());
+        assertThrows(IllegalArgumentException.class, () -> p.withCounts(1e18, 3), "beyond exact whole counts");
+        assertThrows(IllegalArgumentException.class, () -> p.withCounts(1e4, 1e200));
+        assertThrows(IllegalArgumentException.class, () -> p.withContinuum("none", Double.NaN, 5),
+                "continuum counts without a continuum");
+    }
 }

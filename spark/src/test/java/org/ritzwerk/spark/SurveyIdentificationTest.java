@@ -474,8 +474,8 @@ class SurveyIdentificationTest {
         Dataset<Row> whole = spark.createDataFrame(rows, Schemas.PEAK_LISTS).withColumn("positions",
                 org.apache.spark.sql.functions.col("positions").cast("array<bigint>"));
         schema = assertThrows(SparkRowException.class, () -> job.identify(whole));
-        assertEquals("field 'positions': the peak-list table has it as array<bigint>, not array<double> (JSON reads"
-                + " whole numbers as integers: cast it, col(\"positions\").cast(\"array<double>\"))",
+        assertEquals("field 'positions': the peak-list table has it as array<bigint>, not array<double> (JSON and"
+                + " CSV readers choose their own number types: cast it, col(\"positions\").cast(\"array<double>\"))",
                 schema.getMessage());
     }
 

@@ -161,6 +161,18 @@ class SurveySynthesisTest {
         message = SurveyIdentificationTest.failure(() -> job.synthesise(
                 spark.createDataFrame(uneven, Schemas.SCENES)).count());
         assertEquals("row 'uneven', field 'abundances': has 1 elements, but species has 2", message);
+        // A species name that cannot be read is the row's, as an unsupported one is.
+        List<Row> unreadable = List.of(RowFactory.create("odd2", new String[] {"HI"}, null, 5000.0, null, 0.0,
+                8000.0, 1L));
+        message = SurveyIdentificationTest.failure(() -> job.synthesise(
+                spark.createDataFrame(unreadable, Schemas.SCENES)).count());
+        assertTrue(message.startsWith("row 'odd2', field 'species': "), message);
+        List<Row> blurred = List.of(RowFactory.create("blur", new String[] {"H I"}, null, 5000.0, null, 0.0, 0.001,
+                1L));
+        message = SurveyIdentificationTest.failure(() -> job.synthesise(
+                spark.createDataFrame(blurred, Schemas.SCENES)).count());
+        assertEquals("row 'blur', field 'resolving_power': is 0.001; it must be 1 to 1e9, as synth"
+                + " --resolving-power takes it", message);
     }
 
     /**
