@@ -150,8 +150,8 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (the report), csv (the fitted lines: pixel, pixel_sigma, line, wavelength_nm, "
-                    + "solution_nm, residual_nm, residual_pixels, used, flag: blend or saturated) or json (the calibration document, as "
-                    + "--out writes it). Default: ${DEFAULT-VALUE}.")
+                    + "solution_nm, residual_nm, residual_pixels, used, flag: rejected, blend, both, or saturated) or "
+                    + "json (the calibration document, as --out writes it). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
 
     @Option(names = "--apply", paramLabel = "CALIBRATION",
@@ -282,6 +282,19 @@ final class CalibrateCommand implements Callable<Integer> {
         return fixed;
     }
 
+    /**
+     * Whether a bound of the prior is a vacuum wavelength below the air model's range (200 nm)
+     * while the solution is in air: a detector reaching below 200 nm. Such a lower bound adds
+     * nothing in air (no air wavelength lies below 200 nm), so the prior has no lower bound.
+     */
+    private static boolean belowAirModel(String quantity, Medium solutionMedium) {
+        if (!(solutionMedium instanceof Medium.Air)) {
+            return false;
+        }
+        double hertz = AxisMedium.spectral("--from/--to", quantity).toFrequency().inHertz();
+        return org.ritzwerk.constants.PhysicalConstants.C / hertz < 200e-9;
+    }
+
     private LampMatcher.Prior prior() {
         if (from == null && to == null && dispersionRange == null) {
             return LampMatcher.Prior.none();
@@ -296,8 +309,12 @@ final class CalibrateCommand implements Callable<Integer> {
             double a;
             double b;
             try {
-                a = AxisMedium.nanometres("--from", from, m);
-                b = AxisMedium.nanometres("--to", to, m);
+                a = belowAirModel(from, m) ? 0 : AxisMedium.nanometres("--from", from, m);
+                b = belowAirModel(to, m) ? 0 : AxisMedium.nanometres("--to", to, m);
+                if (a == 0 && b == 0) {
+                    throw new OptionException("--from and --to both lie below 200 nm, where air wavelengths are not"
+                            + " defined; calibrate in vacuum (--medium vacuum) for a far-ultraviolet detector");
+                }
             } catch (OptionException e) {
                 throw new OptionException(e.getMessage() + "; give the wavelength range the detector may see", e);
             } catch (IllegalArgumentException | org.ritzwerk.RitzwerkException e) {
@@ -395,6 +412,11 @@ final class CalibrateCommand implements Callable<Integer> {
         }
     }
 
+    /** @return "1 peak", "2 peaks" */
+    private static String count(int n, String noun) {
+        return n + " " + noun + (n == 1 ? "" : "s");
+    }
+
     private void report(SpectrumFiles.Spectrum spectrum, Calibration calibration) {
         PrintWriter w = spec.commandLine().getOut();
         DispersionSolution solution = calibration.solution();
@@ -476,9 +498,9 @@ final class CalibrateCommand implements Callable<Integer> {
                 fittedSaturated += calibration.peaks().has(match.peakIndex(i),
                         org.ritzwerk.engine.calibrate.PeakFlag.SATURATED) ? 1 : 0;
             }
-            w.printf(Locale.ROOT, "%nNote: %d peak(s) reached the saturation level; their centroids come from the wings"
-                    + " and %d paired one(s) were left out of the fit%s.%n", saturated, saturatedPairs.size(),
-                    fittedSaturated == 0 ? "" : String.format(Locale.ROOT, "; %d were kept in it, since without them"
+            w.printf(Locale.ROOT, "%nNote: %s reached the saturation level; their centroids come from the wings."
+                    + " Paired and left out of the fit: %d%s.%n", count(saturated, "peak"), saturatedPairs.size(),
+                    fittedSaturated == 0 ? "" : String.format(Locale.ROOT, "; kept in it: %d, since without them"
                             + " too few pairs remain for a degree-%d solution", fittedSaturated, solution.degree()));
         }
         w.flush();

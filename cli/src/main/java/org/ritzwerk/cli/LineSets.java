@@ -36,8 +36,7 @@ final class LineSets {
                 throw new OptionException(option + " " + e.getMessage(), e);
             }
             // A name that looks like a file is a missing file (the context says so): name the option.
-            if (ReferenceDataException.UNKNOWN_DATA_SET.equals(e.code())
-                    && e.getMessage().startsWith(set + ": no such file")) {
+            if (ReferenceDataException.NO_SUCH_FILE.equals(e.code())) {
                 throw new OptionException(option + " " + e.getMessage(), e);
             }
             throw e;

@@ -445,7 +445,9 @@ public final class DataContext {
      * @param idOrPath a path to an existing user file, else a data set id
      * @return the set: the file as read (a quantum-defect file against this context's nuclear
      *         data), or the registry's set of that id
-     * @throws ReferenceDataException when no set has the id
+     * @throws ReferenceDataException ({@code unknown-data-set}) when no set has the id, or
+     *                                ({@code no-such-file}) when a name that looks like a file (a
+     *                                folder in it, or a .csv, .json or .txt extension) is neither
      * @throws DataFileException      when the file does not read
      */
     public DataSet dataSet(String idOrPath) {
@@ -466,7 +468,7 @@ public final class DataContext {
             // missing file: say so, not only that no data set has that id.
             if (ReferenceDataException.UNKNOWN_DATA_SET.equals(e.code()) && (idOrPath.contains("/")
                     || idOrPath.contains("\\") || idOrPath.matches(".*\\.(csv|json|txt)"))) {
-                throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, idOrPath
+                throw new ReferenceDataException(ReferenceDataException.NO_SUCH_FILE, idOrPath
                         + ": no such file (nor a data set of that name; 'ritzwerk data' lists the sets)");
             }
             throw e;
@@ -477,7 +479,8 @@ public final class DataContext {
      * @param idOrPath a path to an existing line-list file, else the id of a line or lamp set
      * @return the line list
      * @throws ReferenceDataException ({@link ReferenceDataException#WRONG_KIND}) when the set is
-     *                                not a line list, or ({@code unknown-data-set}) when no set has the id
+     *                                not a line list, or ({@code unknown-data-set}, {@code
+     *                                no-such-file}) when no set or file has the name
      * @throws DataFileException      when the file does not read
      */
     public LineList lineList(String idOrPath) {

@@ -10,6 +10,11 @@ public final class ReferenceDataException extends RitzwerkException {
     public static final String UNKNOWN_ISOTOPE = "refdata.unknown-isotope";
     /** Code: no provider offers a data set with that id. */
     public static final String UNKNOWN_DATA_SET = "refdata.unknown-data-set";
+    /**
+     * Code: a name that looks like a file (a folder in it, or a file extension) is neither an
+     * existing file nor a data set's id.
+     */
+    public static final String NO_SUCH_FILE = "refdata.no-such-file";
     /** Code: a provider failed to list or load its data. */
     public static final String PROVIDER_FAILED = "refdata.provider-failed";
     /** Code: a data set was asked for as a kind it is not (a level table where a line list is needed). */

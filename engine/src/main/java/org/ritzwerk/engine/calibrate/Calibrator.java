@@ -386,11 +386,10 @@ public final class Calibrator {
             DispersionSolution solution = calibration.solution();
             throw new CalibrationException(CalibrationException.IMPRECISE, String.format(Locale.ROOT,
                     "%s: the solution (degree %d, %d lines from pixel %.1f to %.1f) has a stated standard uncertainty "
-                            + "of %.4g pixels (%.3g nm) near pixel %.1f, above the required %.4g pixels; lamp lines "
-                            + "near that end, a longer exposure (more counts in the weak lines) or a lower degree "
-                            + "would tighten it", calibration.problem().source(), solution.degree(),
-                    solution.usedCount(), calibration.lowestUsedPixel(), calibration.highestUsedPixel(), sigma,
-                    solution.wavelengthSigmaAt(at), at, requiredPrecision));
+                            + "of %.4g pixels (%.3g nm) near pixel %.1f, above the required %.4g pixels; %s",
+                    calibration.problem().source(), solution.degree(), solution.usedCount(),
+                    calibration.lowestUsedPixel(), calibration.highestUsedPixel(), sigma,
+                    solution.wavelengthSigmaAt(at), at, requiredPrecision, tighten(calibration, at)));
         }
         // Each outermost line must be checked by the others: a wrong pairing there (a foreign line
         // beside a missing lamp line) would move the solution by its offset and show in no residual.
@@ -409,6 +408,16 @@ public final class Calibrator {
                                         CONFIRMATION_FACTOR), requiredPrecision));
             }
         }
+    }
+
+    /** What would tighten the solution where its stated uncertainty is largest. */
+    private static String tighten(Calibration calibration, double at) {
+        double lo = calibration.lowestUsedPixel();
+        double hi = calibration.highestUsedPixel();
+        boolean nearEnd = at - lo < 0.1 * (hi - lo) || hi - at < 0.1 * (hi - lo);
+        return nearEnd ? "lamp lines near that end, a longer exposure (more counts in the weak lines) or a lower degree"
+                + " would tighten it"
+                : "lamp lines in the gap around that pixel (a second gas) or a longer exposure would tighten it";
     }
 
     /**
@@ -440,13 +449,20 @@ public final class Calibrator {
         checkFitWhereTheDegreeIsCapped(problem.source(), solution);
         checkWithinPrior(problem, solution);
         if (chi2 > maxChi2) {
+            boolean priorGiven = !problem.prior().equals(LampMatcher.Prior.none());
+            String help = priorGiven ? "check the prior and the lamp's lines" : "give a prior";
             String cause = degree > 0
                     ? String.format(Locale.ROOT, "the pairs disagree with the fixed degree-%d polynomial by far more "
                             + "than their uncertainties: a dispersion more curved than that degree can follow (let the "
-                            + "degree be chosen, or fix a higher one), or a wrong pairing or lamp list (give a prior)",
-                            degree)
+                            + "degree be chosen, or fix a higher one), or a wrong pairing or lamp list (%s)",
+                            degree, help)
+                    : solution.degree() >= maxDegree && maxDegree < DispersionFit.MAX_DEGREE
+                            ? String.format(Locale.ROOT, "the pairs disagree with every degree up to the highest"
+                                    + " allowed, %d, by far more than their uncertainties: a dispersion more curved"
+                                    + " than that (allow a higher degree), or a wrong pairing or lamp list (%s)",
+                                    maxDegree, help)
                     : "the pairs disagree with any smooth dispersion by far more than their uncertainties, which means "
-                            + "a wrong pairing or a wrong lamp list. Give a prior";
+                            + "a wrong pairing or a wrong lamp list: " + help;
             throw new CalibrationException(CalibrationException.IMPLAUSIBLE_FIT, String.format(Locale.ROOT,
                     "%s: the fitted solution's reduced chi-square is %.3g (%d pairs, RMS %.3g pixels), above the "
                             + "accepted %.3g: %s; raise the accepted limit (a library setting) only if the centroid "

@@ -400,7 +400,7 @@ public final class LampMatcher {
             }
         }
         if (n < MIN_FEW_LINE_MATCHES) {
-            throw new CalibrationException(CalibrationException.TOO_FEW_PEAKS, "found " + n + " peaks; a calibration "
+            throw new CalibrationException(CalibrationException.TOO_FEW_PEAKS, "found " + n + " peak" + (n == 1 ? "" : "s") + "; a calibration "
                     + "needs at least " + MIN_FEW_LINE_MATCHES + " (" + MIN_MATCHES + " unless the lamp has only "
                     + MIN_FEW_LINE_MATCHES + " lines)");
         }
@@ -412,7 +412,7 @@ public final class LampMatcher {
         }
         int needed = Math.min(MIN_MATCHES, inPrior);
         if (n < needed) {
-            throw new CalibrationException(CalibrationException.TOO_FEW_PEAKS, "found " + n + " peaks; with "
+            throw new CalibrationException(CalibrationException.TOO_FEW_PEAKS, "found " + n + " peak" + (n == 1 ? "" : "s") + "; with "
                     + inPrior + " lamp lines in range a calibration needs at least " + needed);
         }
         Search inside = new Search(centre, intensity, pixels, lines, prior);
