@@ -458,7 +458,22 @@ public final class LampMatcher {
                 MAX_FALSE_ALARM, where(inside, anywhere))
                 + String.format(Locale.ROOT, "; the pairs scatter about its polynomial with a robust reduced "
                         + "chi-square of %.3g (at most %.3g accepted)", shownRefined.robustChiSquare(),
-                        MAX_ROBUST_CHI_SQUARE));
+                        MAX_ROBUST_CHI_SQUARE) + onlyTheShare(shown, shownRefined, shownSearch));
+    }
+
+    /**
+     * When the pairing beats chance and scatters as it should, so that only the share of strong
+     * peaks paired is short (foreign lines among the strongest peaks), the message says so.
+     */
+    private String onlyTheShare(Candidate shown, Refined refined, Search search) {
+        boolean chance = chanceProbability(shown) * Math.max(1, search.evaluated) <= MAX_FALSE_ALARM;
+        boolean scatter = refined.robustChiSquare() <= MAX_ROBUST_CHI_SQUARE;
+        if (!chance || !scatter || shown.strongMatched >= minInlierFraction * search.strong.length) {
+            return "";
+        }
+        return ". Only the share of strong peaks paired is short: the pairing beats chance, so foreign lines may"
+                + " hold the other strongest places; a lower required share (the min-matched setting) accepts it"
+                + " when the lamp is known to be right";
     }
 
     /** Where the search looked and what it tried, for messages. */
