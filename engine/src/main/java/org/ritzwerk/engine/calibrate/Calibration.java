@@ -206,13 +206,22 @@ public final class Calibration {
 
     /**
      * @param i a fitted pair, 0 to {@code solution().size() - 1}
-     * @return the extra centroid uncertainty (pixels) the pair carries because its peak looks like
-     *         an unresolved blend (a poor profile fit, {@link PeakFlag#POOR_FIT}, or a width beyond
-     *         the instrument's, {@link PeakFlag#WIDE}): the most its centroid can sit from its
-     *         brighter line, added in quadrature to the statistical uncertainty; 0 when it does not
+     * @return the extra centroid uncertainty (pixels) the pair carries because its peak may be an
+     *         unresolved blend (a poor profile fit, {@link PeakFlag#POOR_FIT}, a width beyond the
+     *         instrument's, {@link PeakFlag#WIDE}, or another lamp line closer than the peak's
+     *         width): the most its centroid can sit from its line, added in quadrature to the
+     *         statistical uncertainty; 0 when it carries none
      */
     public double blendOffsetBound(int i) {
-        return IdentifierRefinement.blendOffsetBound(peaks, match.peakIndex(i));
+        return blendBound(match, peaks, i);
+    }
+
+    /** The part of a pair's centroid uncertainty beyond the peak's statistical one. */
+    static double blendBound(LampMatch pairs, Peaks peaks, int i) {
+        double total = pairs.pixelSigma(i);
+        double statistical = peaks.centreSigma(pairs.peakIndex(i));
+        double extra = total * total - statistical * statistical;
+        return extra > 1e-12 * total * total ? Math.sqrt(extra) : 0;
     }
 
     /** @return the lamp line of every fitted pair, in pair order */

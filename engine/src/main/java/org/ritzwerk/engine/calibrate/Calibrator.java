@@ -327,7 +327,7 @@ public final class Calibrator {
         String[] notes = new String[fitted.size()];
         boolean any = false;
         for (int i = 0; i < notes.length; i++) {
-            boolean blend = IdentifierRefinement.blendOffsetBound(peaks, fitted.peakIndex(i)) > 0;
+            boolean blend = Calibration.blendBound(fitted, peaks, i) > 0;
             boolean saturated = peaks.has(fitted.peakIndex(i), PeakFlag.SATURATED);
             notes[i] = blend ? CalibrationRecord.FittedLine.BLEND : saturated ? CalibrationRecord.FittedLine.SATURATED
                     : "";

@@ -14,8 +14,9 @@ import org.ritzwerk.engine.calibrate.Calibrator;
  * with an error above 1 pixel between its first and last fitted line.
  *
  * <p>Seeds 1 to 40, solved / refused / accepted with 0.1 to 1 pixel error / worse: Cd + Zn
- * 15 / 20 / 5 / 0 (21 lines from 213.9 to 643.8 nm: a window of 150 nm holds only 5 to 10, so
- * many are refused), Hg + Cd + Zn 24 / 13 / 3 / 0. Before the lack-of-fit test for a degree that
+ * 16 / 19 / 5 / 0 (21 lines from 213.9 to 643.8 nm: a window of 150 nm holds only 5 to 10, so
+ * many are refused), Hg + Cd + Zn 25 / 12 / 3 / 0 (15 / 20 / 5 / 0 and 24 / 13 / 3 / 0 before a
+ * pair's centroid got the bound of a neighbouring lamp line). Before the lack-of-fit test for a degree that
  * the pair count capped ({@code Calibrator.LACK_OF_FIT_PROBABILITY}) Hg + Cd + Zn seed 24 was
  * accepted 5.5 pixels off: a straight line through four pairs of a curved dispersion (reduced
  * chi-square 11.7 with 2 degrees of freedom), the last pair a blend with a foreign line. Cd + Zn
