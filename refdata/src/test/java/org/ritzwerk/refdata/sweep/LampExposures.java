@@ -12,6 +12,7 @@ import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.LineRenderer;
 import org.ritzwerk.engine.synth.Noise;
 import org.ritzwerk.engine.synth.PixelGrid;
+import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
 
@@ -207,6 +208,38 @@ public final class LampExposures {
      * cubic wiggle of relative size {@code cubic}, scaled so that pixel 0 is {@code start} and the
      * last pixel is {@code start + span}.
      */
+    /**
+     * A cadmium-zinc lamp exposure on a spectrometer whose wavelength at pixel p is the
+     * polynomial c (nm, air), drawn from the built-in Cd I and Zn I sets at 500 K as
+     * {@code synth --lines lamp-cd-i --lines lamp-zn-i} draws it.
+     *
+     * @param data           the data context
+     * @param c              the dispersion's coefficients
+     * @param pixels         number of pixels
+     * @param resolvingPower the instrument's
+     * @param peakCounts     expected counts of the brightest pixel
+     * @param readNoise      read noise, counts
+     * @param seed           the noise seed
+     * @return the counts
+     */
+    static double[] cadmiumZinc(DataContext data, double[] c, int pixels, double resolvingPower, double peakCounts,
+            double readNoise, long seed) {
+        return Scene.builder(PixelGrid.dispersion(c, pixels)).medium(Medium.air())
+                .instrument(Instrument.ofResolvingPower(resolvingPower)).temperature(500).peakCounts(peakCounts)
+                .lineList(data.lampLines(Species.parse("Cd I")), data::nucleus)
+                .lineList(data.lampLines(Species.parse("Zn I")), data::nucleus)
+                .noise(readNoise, seed).build().render(1).counts();
+    }
+
+    /** @return the built-in lamp sets of the given gases, in air */
+    static LampSet lamp(DataContext data, String... gases) {
+        List<LineList> lists = new ArrayList<>();
+        for (String gas : gases) {
+            lists.add(data.lampLines(Species.parse(gas)));
+        }
+        return LampSet.of(lists, Medium.air());
+    }
+
     static double[] dispersion(double start, double span, int pixels, double kappa, double cubic) {
         double last = pixels - 1;
         // slope(t) = 1 + kappa (t - 1/2) + cubic (t - 1/2)^2 * 3, t = p / last; integrate, then scale.

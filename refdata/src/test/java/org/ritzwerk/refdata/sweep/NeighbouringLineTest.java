@@ -2,17 +2,11 @@ package org.ritzwerk.refdata.sweep;
 
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.util.List;
 import org.junit.jupiter.api.Test;
-import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.calibrate.Calibration;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
 import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.LampSet;
-import org.ritzwerk.engine.synth.Instrument;
-import org.ritzwerk.engine.synth.PixelGrid;
-import org.ritzwerk.engine.synth.Scene;
-import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
 
 /**
@@ -29,13 +23,8 @@ class NeighbouringLineTest {
     void aPeakHidingTwoLampLinesOfTwoGasesDoesNotPullTheFit() {
         DataContext data = DataContext.builtIn();
         double[] c = {545.7021753, -0.05141008677, -3.967234784e-06};
-        double[] counts = Scene.builder(PixelGrid.dispersion(c, 3648)).medium(Medium.air())
-                .instrument(Instrument.ofResolvingPower(1738.8)).temperature(500).peakCounts(3000)
-                .lineList(data.lampLines(Species.parse("Cd I")), data::nucleus)
-                .lineList(data.lampLines(Species.parse("Zn I")), data::nucleus)
-                .noise(2.98, 44).build().render(1).counts();
-        LampSet lamp = LampSet.of(List.of(data.lampLines(Species.parse("Cd I")),
-                data.lampLines(Species.parse("Zn I"))), Medium.air());
+        double[] counts = LampExposures.cadmiumZinc(data, c, 3648, 1738.8, 3000, 2.98, 44);
+        LampSet lamp = LampExposures.lamp(data, "Cd I", "Zn I");
         Calibration cubic = Calibrator.defaults().withDegree(3).calibrate(CalibrationProblem.builder(counts)
                 .lamp(lamp).build());
         boolean flagged = false;

@@ -4,18 +4,12 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.util.List;
 import org.junit.jupiter.api.Test;
-import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.calibrate.CalibrationException;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
 import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.LampMatcher;
 import org.ritzwerk.engine.calibrate.LampSet;
-import org.ritzwerk.engine.synth.Instrument;
-import org.ritzwerk.engine.synth.PixelGrid;
-import org.ritzwerk.engine.synth.Scene;
-import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
 
 /**
@@ -33,13 +27,8 @@ class ShortPriorTest {
     void aFitOutsideThePriorOrWithoutFitIsRefused() {
         DataContext data = DataContext.builtIn();
         double[] c = {202.499397, 0.1856893055, 2.440705203e-05};
-        double[] counts = Scene.builder(PixelGrid.dispersion(c, 2048)).medium(Medium.air())
-                .instrument(Instrument.ofResolvingPower(661.6)).temperature(500).peakCounts(10_000)
-                .lineList(data.lampLines(Species.parse("Cd I")), data::nucleus)
-                .lineList(data.lampLines(Species.parse("Zn I")), data::nucleus)
-                .noise(6.97, 1).build().render(1).counts();
-        LampSet lamp = LampSet.of(List.of(data.lampLines(Species.parse("Cd I")),
-                data.lampLines(Species.parse("Zn I"))), Medium.air());
+        double[] counts = LampExposures.cadmiumZinc(data, c, 2048, 661.6, 10_000, 6.97, 1);
+        LampSet lamp = LampExposures.lamp(data, "Cd I", "Zn I");
         LampMatcher.Prior shortPrior = new LampMatcher.Prior(200, 670, -1000, 1000);
         CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(lamp).prior(shortPrior).build();
         CalibrationException cubic = assertThrows(CalibrationException.class,

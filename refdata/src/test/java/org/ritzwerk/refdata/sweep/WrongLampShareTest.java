@@ -4,18 +4,12 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.util.List;
 import org.junit.jupiter.api.Test;
-import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.calibrate.Calibration;
 import org.ritzwerk.engine.calibrate.CalibrationException;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
 import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.LampSet;
-import org.ritzwerk.engine.synth.Instrument;
-import org.ritzwerk.engine.synth.PixelGrid;
-import org.ritzwerk.engine.synth.Scene;
-import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
 
 /**
@@ -32,21 +26,15 @@ class WrongLampShareTest {
     void aLoweredShareDoesNotLetTheWrongLampThrough() {
         DataContext data = DataContext.builtIn();
         double[] c = {201.4192528, 0.1157934584, 5.495407762e-06};
-        double[] counts = Scene.builder(PixelGrid.dispersion(c, 3648)).medium(Medium.air())
-                .instrument(Instrument.ofResolvingPower(1188.6)).temperature(500).peakCounts(3000)
-                .lineList(data.lampLines(Species.parse("Cd I")), data::nucleus)
-                .lineList(data.lampLines(Species.parse("Zn I")), data::nucleus)
-                .noise(4.63, 8).build().render(1).counts();
-        LampSet wrong = LampSet.of(List.of(data.lampLines(Species.parse("Ne I")),
-                data.lampLines(Species.parse("Ar I"))), Medium.air());
+        double[] counts = LampExposures.cadmiumZinc(data, c, 3648, 1188.6, 3000, 4.63, 8);
+        LampSet wrong = LampExposures.lamp(data, "Ne I", "Ar I");
         for (double share : new double[] {0.6, 0.5, 0.3}) {
             CalibrationException e = assertThrows(CalibrationException.class, () -> Calibrator.defaults()
                     .withMinMatchedFraction(share).calibrate(CalibrationProblem.builder(counts).lamp(wrong).build()),
                     "share " + share);
             assertEquals(CalibrationException.LAMP_MISMATCH, e.code(), e.getMessage());
         }
-        LampSet right = LampSet.of(List.of(data.lampLines(Species.parse("Cd I")),
-                data.lampLines(Species.parse("Zn I"))), Medium.air());
+        LampSet right = LampExposures.lamp(data, "Cd I", "Zn I");
         Calibration solved = Calibrator.defaults().calibrate(CalibrationProblem.builder(counts).lamp(right).build());
         for (double p = solved.lowestUsedPixel(); p <= solved.highestUsedPixel(); p += 50) {
             double truth = c[0] + c[1] * p + c[2] * p * p;
