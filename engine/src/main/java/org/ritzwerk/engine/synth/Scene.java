@@ -160,6 +160,18 @@ public final class Scene {
             brightest = Math.max(brightest, v);
         }
         if (brightest == 0 && continuum == null) {
+            int inside = 0;
+            for (int i = 0; i < lines.size(); i++) {
+                inside += lines.position(i) >= grid.lowest() && lines.position(i) <= grid.highest() ? 1 : 0;
+            }
+            if (inside > 0) {
+                throw new SceneException(SceneException.NO_LIGHT, inside + (inside == 1 ? " line falls" : " lines fall")
+                        + " on the grid from " + grid.lowest() + " to " + grid.highest() + " nm, but none"
+                        + " carries any light: at the scene's temperature the Boltzmann populations of their upper"
+                        + " levels, exp(-E / kT), are below the smallest number a double holds (about 1e-308), the"
+                        + " ionisation balance leaves no emitters, or a line list gives them no intensity; raise the"
+                        + " temperature");
+            }
             throw new SceneException(SceneException.NO_LIGHT, "no line falls on the grid from " + grid.lowest()
                     + " to " + grid.highest() + " nm; widen the range, raise nMax or add emitters");
         }

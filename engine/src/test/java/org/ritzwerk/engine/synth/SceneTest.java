@@ -327,6 +327,12 @@ class SceneTest {
                 .hydrogenLike(Species.parse("H I"), H, 1).nMax(3).build().render(1));
         assertEquals(SceneException.NO_LIGHT, dark.code());
         assertTrue(dark.getMessage().contains("no line falls"), dark.getMessage());
+        // H-alpha lies in the grid, but at 30 K no atom is in n = 3: the message says which it is.
+        SceneException cold = assertThrows(SceneException.class, () -> Scene.builder(PixelGrid.linear(640, 660, 200))
+                .hydrogenLike(Species.parse("H I"), H, 1).temperature(30).build().render(1));
+        assertEquals(SceneException.NO_LIGHT, cold.code());
+        assertTrue(cold.getMessage().startsWith("1 line falls on the grid from 640.0 to 660.0 nm, but none carries any"
+                + " light"), cold.getMessage());
         e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid)
                 .hydrogenLike(Species.parse("H I"), H, 1).naturalWidths(true).nMax(100).build());
         assertTrue(e.getMessage().contains("natural widths"), e.getMessage());
