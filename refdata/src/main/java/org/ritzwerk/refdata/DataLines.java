@@ -176,7 +176,13 @@ public final class DataLines {
      */
     public record CalibrationLamp(LampSet lamp, LampSet fromLists, List<LevelLamp> fromLevels) {
 
-        /** Copies the list. */
+        /**
+         * Copies the list.
+         *
+         * @param lamp       as above
+         * @param fromLists  as above
+         * @param fromLevels as above
+         */
         public CalibrationLamp {
             Objects.requireNonNull(lamp, "lamp");
             fromLevels = List.copyOf(fromLevels);

@@ -71,13 +71,21 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
      *                          {@link Scene#MAX_N_WITH_NATURAL_WIDTHS})
      * @param components        whether one-electron ions' fine-structure components are drawn one by
      *                          one ({@code --components})
+     *
+     * @serial exclude
      */
     public record Shapes(double collisionalFwhmNm, boolean naturalWidths, boolean components)
             implements Serializable {
 
         private static final long serialVersionUID = 1L;
 
-        /** Checks the width. */
+        /**
+         * Checks the width.
+         *
+         * @param collisionalFwhmNm as above
+         * @param naturalWidths     as above
+         * @param components        as above
+         */
         public Shapes {
             if (!(collisionalFwhmNm >= 0) || Double.isInfinite(collisionalFwhmNm)) {
                 throw new IllegalArgumentException("collisionalFwhmNm must be finite and not negative, got "
@@ -99,12 +107,20 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
      *                     (the command's default); NaN unless blackbody
      * @param counts       the expected counts of the continuum's brightest pixel (the command's
      *                     {@code --continuum-counts}, default 100)
+     *
+     * @serial exclude
      */
     public record Background(String kind, double temperatureK, double counts) implements Serializable {
 
         private static final long serialVersionUID = 1L;
 
-        /** Checks every field as the command does. */
+        /**
+         * Checks every field as the command does.
+         *
+         * @param kind         as above
+         * @param temperatureK as above
+         * @param counts       as above
+         */
         public Background {
             Objects.requireNonNull(kind, "kind");
             if (!List.of("none", "flat", "blackbody").contains(kind)) {
