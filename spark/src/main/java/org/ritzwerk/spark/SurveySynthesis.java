@@ -25,6 +25,7 @@ import org.ritzwerk.engine.synth.SceneException;
 import org.ritzwerk.engine.synth.SyntheticSpectrum;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
+import org.ritzwerk.refdata.ContinuumFiles;
 import org.ritzwerk.refdata.DataLines;
 
 /**
@@ -107,6 +108,8 @@ public final class SurveySynthesis {
         private final Renderer renderer;
         private final Map<String, Setups.Atoms> species = new HashMap<>();
         private final Map<Species, RitzTransitions> transitions = new HashMap<>();
+        /** The parameters' continuum file, read once per partition; null without one. */
+        private final DoubleUnaryOperator fileContinuum;
         /** The parameters' line lists, read once per partition (an unknown set fails the setup). */
         private final List<LineList> lineLists = new java.util.ArrayList<>();
         private final Catalyst.Strings strings = new Catalyst.Strings();
@@ -122,6 +125,17 @@ public final class SurveySynthesis {
             this.grid = p.grid();
             this.medium = Medium.parse(p.medium());
             this.renderer = p.rendererChoice();
+            if (p.background().kind().equals("file")) {
+                try {
+                    fileContinuum = ContinuumFiles.read(java.nio.file.Path.of(p.background().file()), grid.lowest(),
+                            grid.highest());
+                } catch (RuntimeException e) {
+                    throw new IllegalArgumentException("continuum file " + p.background().file() + ": "
+                            + e.getMessage(), e);
+                }
+            } else {
+                fileContinuum = null;
+            }
             // Each list is read and checked here, once: a set that is unknown, gives no line an
             // intensity or names an element without nuclear data fails the setup naming it, not
             // every row.
@@ -284,6 +298,7 @@ public final class SurveySynthesis {
             DoubleUnaryOperator density;
             switch (background.kind()) {
                 case "flat" -> density = nm -> 1;
+                case "file" -> density = fileContinuum;
                 case "blackbody" -> {
                     double t = Double.isNaN(background.temperatureK()) ? temperature : background.temperatureK();
                     density = nm -> Continuum.planckPhotonsPerWavelength(medium.toVacuum(nm * 1e-9), t);

@@ -100,17 +100,22 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
     }
 
     /**
-     * The continuum of {@code synth --continuum}.
+     * The continuum of {@code synth --continuum} or {@code --continuum-file}.
      *
-     * @param kind         none, flat, or blackbody (photons per wavelength, as the command draws it)
+     * @param kind         none, flat, blackbody (photons per wavelength, as the command draws it), or
+     *                     file (a shape of the user's own: {@code file})
      * @param temperatureK the blackbody's temperature; NaN for each scene's own {@code temperature_k}
      *                     (the command's default); NaN unless blackbody
      * @param counts       the expected counts of the continuum's brightest pixel (the command's
      *                     {@code --continuum-counts}, default 100)
+     * @param file         for kind file, a continuum CSV ({@code wavelength_nm,density}, as
+     *                     {@code --continuum-file} reads it) readable at this path on every executor;
+     *                     else null
      *
      * @serial exclude
      */
-    public record Background(String kind, double temperatureK, double counts) implements Serializable {
+    public record Background(String kind, double temperatureK, double counts, String file)
+            implements Serializable {
 
         private static final long serialVersionUID = 1L;
 
@@ -120,12 +125,13 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
          * @param kind         as above
          * @param temperatureK as above
          * @param counts       as above
+         * @param file         as above
          */
         public Background {
             Objects.requireNonNull(kind, "kind");
-            if (!List.of("none", "flat", "blackbody").contains(kind)) {
-                throw new IllegalArgumentException("continuum kind must be none, flat or blackbody, got '" + kind
-                        + "'");
+            if (!List.of("none", "flat", "blackbody", "file").contains(kind)) {
+                throw new IllegalArgumentException("continuum kind must be none, flat, blackbody or file, got '"
+                        + kind + "'");
             }
             if (!Double.isNaN(temperatureK) && !(kind.equals("blackbody") && temperatureK > 0
                     && temperatureK < 1e9)) {
@@ -139,11 +145,17 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
                 throw new IllegalArgumentException("continuum counts are for a flat or blackbody continuum; with"
                         + " none leave the default, 100, got " + counts);
             }
+            if (kind.equals("file") != (file != null)) {
+                throw new IllegalArgumentException("a continuum file goes with kind file, and kind file needs one");
+            }
+            if (file != null && file.isBlank()) {
+                throw new IllegalArgumentException("the continuum file's path is blank");
+            }
         }
 
         /** @return no continuum */
         public static Background none() {
-            return new Background("none", Double.NaN, 100);
+            return new Background("none", Double.NaN, 100, null);
         }
     }
 
@@ -337,7 +349,20 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
      */
     public SynthesisParameters withContinuum(String kind, double temperatureK, double counts) {
         return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, model, nMax, renderer,
-                peakCounts, readNoise, dataFiles, lineSets, shapes, new Background(kind, temperatureK, counts));
+                peakCounts, readNoise, dataFiles, lineSets, shapes,
+                new Background(kind, temperatureK, counts, null));
+    }
+
+    /**
+     * @param file   a continuum CSV ({@code wavelength_nm,density} in the axis medium), readable at
+     *               this path on every executor; it must reach both ends of the grid
+     * @param counts the continuum's brightest pixel's expected counts
+     * @return a copy, as {@code synth --continuum-file FILE --continuum-counts C}
+     */
+    public SynthesisParameters withContinuumFile(String file, double counts) {
+        return new SynthesisParameters(fromNm, toNm, pixels, logarithmic, dispersion, medium, model, nMax, renderer,
+                peakCounts, readNoise, dataFiles, lineSets, shapes,
+                new Background("file", Double.NaN, counts, file));
     }
 
     /** @return the grid */

@@ -296,6 +296,37 @@ class SurveySynthesisTest {
         }
     }
 
+    /**
+     * A continuum of the user's own ({@code synth --continuum-file}): an invented ramp read once per
+     * partition, the same spectrum as the library's with the same file; a missing file fails when
+     * the operation is made, naming it.
+     */
+    @Test
+    void aContinuumFileIsTheLibrarysBitForBit(@org.junit.jupiter.api.io.TempDir java.nio.file.Path folder)
+            throws java.io.IOException {
+        SparkSession spark = LocalSpark.session();
+        java.nio.file.Path ramp = folder.resolve("ramp.csv");
+        java.nio.file.Files.writeString(ramp, "# an invented ramp\nwavelength_nm,density\n630,1\n650,3\n680,2\n");
+        List<Row> scenes = List.of(RowFactory.create("ramp", new String[] {"H I"}, null, 9000.0, null, 0.0, 8000.0,
+                1L));
+        Row row = SurveySynthesis.of(GRID.withContinuumFile(ramp.toString(), 250)).synthesise(spark.createDataFrame(
+                scenes, Schemas.SCENES)).collectAsList().get(0);
+        DataContext data = DataContext.discoverDefault();
+        PixelGrid grid = PixelGrid.linear(640, 670, 1500);
+        Species h = Species.parse("H I");
+        SyntheticSpectrum s = Scene.builder(grid).medium(Medium.air()).instrument(Instrument.ofResolvingPower(8000))
+                .naturalWidths(false).renderer(Renderer.AUTO).temperature(9000).nMax(12).velocity(0)
+                .peakCounts(5000).hydrogenLike(h, HydrogenLikeModel.of(data.nucleus(h), Tier.QED), 1.0)
+                .continuum(org.ritzwerk.refdata.ContinuumFiles.read(ramp, grid.lowest(), grid.highest()), 250)
+                .noise(3, 1).build().render(1);
+        assertNull(row.getAs("failure"));
+        assertArrayEquals(s.counts(), toArray(row.getList(1)));
+        assertArrayEquals(s.expectedCounts(), toArray(row.getList(2)));
+        String missing = SurveyIdentificationTest.failure(() -> SurveySynthesis.of(GRID.withContinuumFile(
+                folder.resolve("nosuch.csv").toString(), 250)));
+        assertTrue(missing.startsWith("continuum file " + folder.resolve("nosuch.csv")), missing);
+    }
+
     private static double[] toArray(List<Double> list) {
         double[] values = new double[list.size()];
         for (int i = 0; i < values.length; i++) {
