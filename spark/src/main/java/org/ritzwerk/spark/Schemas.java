@@ -286,7 +286,10 @@ public final class Schemas {
      * Synthesis output, one row per scene: {@code id}; {@code counts} (with noise, one per pixel
      * of the grid in {@link SynthesisParameters}); {@code expected_counts} (without noise);
      * {@code lines} (the truth, array of {@link #TRUE_LINE}); {@code failure_code} and
-     * {@code failure} when the job refused the scene (e.g. no line carries light in the grid).
+     * {@code failure} when the job refused the scene (e.g. no line carries light in the grid);
+     * {@code notes} (what the scene's physics left out or merged, as {@code synth} prints them as
+     * notes: Stark widths drawn only for some lines, Balmer lines merged by the density, ...; empty
+     * when there is nothing to say, null for a refused scene).
      */
     public static final StructType SPECTRA = struct(
             required("id", DataTypes.StringType),
@@ -294,7 +297,8 @@ public final class Schemas {
             optional("expected_counts", DOUBLES),
             optional("lines", DataTypes.createArrayType(TRUE_LINE, false)),
             optional("failure_code", DataTypes.StringType),
-            optional("failure", DataTypes.StringType));
+            optional("failure", DataTypes.StringType),
+            optional("notes", STRINGS));
 
     private static StructField[] concat(StructField[] a, StructField[] b) {
         StructField[] all = new StructField[a.length + b.length];

@@ -118,6 +118,7 @@ public final class SurveySynthesis {
         private final UnsafeArrayWriter arrayOut = new UnsafeArrayWriter(out, 8);
         private final UnsafeArrayWriter linesOut = new UnsafeArrayWriter(out, 8);
         private final UnsafeRowWriter lineOut = new UnsafeRowWriter(linesOut, Schemas.TRUE_LINE.size());
+        private final UnsafeArrayWriter notesOut = new UnsafeArrayWriter(out, 8);
 
         Setup(SynthesisParameters p) {
             this.p = p;
@@ -240,6 +241,7 @@ public final class SurveySynthesis {
                 builder.noise(p.readNoise(), seed);
             }
             SyntheticSpectrum spectrum;
+            Scene scene;
             try {
                 // Then the level-list species (He I), as the command adds them.
                 for (int k = 0; k < names.length; k++) {
@@ -252,7 +254,8 @@ public final class SurveySynthesis {
                     builder.lineList(list, data::nucleus);
                 }
                 continuum(builder, temperature);
-                spectrum = builder.build().render(1);
+                scene = builder.build();
+                spectrum = scene.render(1);
             } catch (SceneException e) {
                 out.reset();
                 out.zeroOutNullBytes();
@@ -262,6 +265,7 @@ public final class SurveySynthesis {
                 out.setNullAt(3);
                 Catalyst.string(out, 4, Catalyst.utf8(e.code()));
                 Catalyst.string(out, 5, Catalyst.utf8(e.getMessage()));
+                out.setNullAt(6);
                 return out.getRow();
             }
             // Written straight into Spark's binary row form (see SurveyIdentification): no copies of
@@ -289,6 +293,13 @@ public final class SurveySynthesis {
             out.setOffsetAndSizeFromPreviousCursor(3, start);
             out.setNullAt(4);
             out.setNullAt(5);
+            List<String> notes = scene.notes();
+            start = out.cursor();
+            notesOut.initialize(notes.size());
+            for (int k = 0; k < notes.size(); k++) {
+                notesOut.write(k, strings.of(notes.get(k)));
+            }
+            out.setOffsetAndSizeFromPreviousCursor(6, start);
             return out.getRow();
         }
 

@@ -35,7 +35,7 @@ class SurveySynthesisTest {
             .withModel("qed", 12).withCounts(5000, 3);
 
     /** The library as the synth command composes one scene (ions, then alkali atoms, then level lists). */
-    private static SyntheticSpectrum library(DataContext data, String[] species, double[] abundances, double kelvin,
+    private static Scene library(DataContext data, String[] species, double[] abundances, double kelvin,
             Double density, double velocity, double resolvingPower, long seed) {
         Scene.Builder b = Scene.builder(PixelGrid.linear(640, 670, 1500)).medium(Medium.air())
                 .instrument(Instrument.ofResolvingPower(resolvingPower)).naturalWidths(false).renderer(Renderer.AUTO)
@@ -62,7 +62,7 @@ class SurveySynthesisTest {
                 b.levels(DataLines.levels(data, s), DataLines.ritzLines(data, s), abundances[k], data.nucleus(s));
             }
         }
-        return b.build().render(1);
+        return b.build();
     }
 
     private static boolean isAlkali(DataContext data, Species s) {
@@ -100,7 +100,7 @@ class SurveySynthesisTest {
             if (row.getString(0).equals("sr")) {
                 org.ritzwerk.engine.synth.SceneException refused = org.junit.jupiter.api.Assertions.assertThrows(
                         org.ritzwerk.engine.synth.SceneException.class, () -> library(data, species, new double[] {1},
-                                9000, null, 0, 8000, 7L));
+                                9000, null, 0, 8000, 7L).render(1));
                 assertEquals("synth.no-rates", row.getAs("failure_code"));
                 assertEquals(refused.getMessage(), row.getAs("failure"));
                 continue;
@@ -109,13 +109,19 @@ class SurveySynthesisTest {
                 // K I has no line between 640 and 670 nm (levels up to n = 12): the job refuses the scene.
                 org.ritzwerk.engine.synth.SceneException refused = org.junit.jupiter.api.Assertions.assertThrows(
                         org.ritzwerk.engine.synth.SceneException.class, () -> library(data, species, new double[] {1},
-                                9000, null, 0, 8000, 5L));
+                                9000, null, 0, 8000, 5L).render(1));
                 assertEquals(refused.code(), row.getAs("failure_code"));
                 assertEquals(refused.getMessage(), row.getAs("failure"));
                 continue;
             }
-            SyntheticSpectrum s = library(data, species, abundances, in.getDouble(3),
+            Scene scene = library(data, species, abundances, in.getDouble(3),
                     in.isNullAt(4) ? null : in.getDouble(4), in.getDouble(5), in.getDouble(6), in.getLong(7));
+            SyntheticSpectrum s = scene.render(1);
+            // The scene's notes, as synth prints them (s1 and s4 give an electron density).
+            assertEquals(scene.notes(), row.getList(6), row.getString(0));
+            if (row.getString(0).equals("s1")) {
+                assertFalse(scene.notes().isEmpty(), "a scene with an electron density has notes");
+            }
             assertNull(row.getAs("failure"), row.getString(0));
             assertArrayEquals(s.counts(), toArray(row.getList(1)), row.getString(0));
             assertArrayEquals(s.expectedCounts(), toArray(row.getList(2)));
