@@ -536,21 +536,18 @@ public final class Calibrator {
         if (prior.equals(LampMatcher.Prior.none())) {
             return;
         }
-        double margin = prior.margin();
-        double slack = 0.05 * Math.max(Math.abs(prior.minDispersion()), Math.abs(prior.maxDispersion()));
         int pixels = problem.pixels();
         double lo = Double.POSITIVE_INFINITY;
         double hi = Double.NEGATIVE_INFINITY;
-        boolean dispersionOutside = false;
+        boolean outside = false;
         for (int s = 0; s <= 64; s++) {
             double p = (pixels - 1) * s / 64.0;
             double nm = solution.wavelengthAt(p);
             lo = Math.min(lo, nm);
             hi = Math.max(hi, nm);
-            double d = solution.dispersionAt(p);
-            dispersionOutside |= d < prior.minDispersion() - slack || d > prior.maxDispersion() + slack;
+            outside |= !prior.admits(nm, solution.dispersionAt(p), Double.NEGATIVE_INFINITY);
         }
-        if (lo < prior.minWavelengthNm() - margin || hi > prior.maxWavelengthNm() + margin || dispersionOutside) {
+        if (outside) {
             throw new CalibrationException(CalibrationException.OUTSIDE_PRIOR, String.format(Locale.ROOT,
                     "%s: the fitted solution (degree %d, %d lines) runs from %.2f to %.2f nm over pixels 0 to %d "
                             + "(%.4g to %.4g nm/pixel), outside the prior (%s): the prior or a pairing is wrong; "

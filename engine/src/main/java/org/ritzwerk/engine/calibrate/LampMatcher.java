@@ -214,6 +214,23 @@ public final class LampMatcher {
             return Double.isInfinite(maxWavelengthNm) ? 0 : 0.02 * (maxWavelengthNm - minWavelengthNm);
         }
 
+        /**
+         * Whether a solution that sees {@code nm} with local dispersion {@code dispersion} at a
+         * pixel stays inside the prior, with its margins: 2 % of the wavelength range
+         * ({@link #margin()}), 5 % of the larger dispersion bound.
+         *
+         * @param nm         the wavelength there, nm
+         * @param dispersion the dispersion there, nm per pixel
+         * @param floorNm    a lowest wavelength besides the prior's (the air model's), or -infinity
+         * @return whether both lie inside
+         */
+        boolean admits(double nm, double dispersion, double floorNm) {
+            double margin = margin();
+            double slack = 0.05 * Math.max(Math.abs(minDispersion), Math.abs(maxDispersion));
+            return !(dispersion < minDispersion - slack || dispersion > maxDispersion + slack)
+                    && nm > Math.max(minWavelengthNm - margin, floorNm) && !(nm > maxWavelengthNm + margin);
+        }
+
         @Override
         public String toString() {
             String range = minWavelengthNm <= 0 && Double.isInfinite(maxWavelengthNm) ? "any wavelength"
@@ -1274,25 +1291,14 @@ public final class LampMatcher {
          * the reach of the lamp's lines and of the lines' medium.
          */
         private boolean withinPrior(double[] a, int sign) {
-            double margin = searchPrior.margin();
-            double slack = 0.05 * Math.max(Math.abs(searchPrior.minDispersion()),
-                    Math.abs(searchPrior.maxDispersion()));
-            double lowest = Math.max(searchPrior.minWavelengthNm() - margin,
-                    lines.medium() instanceof Medium.Air ? AIR_MODEL_LOWEST_NM : 0);
+            double floor = lines.medium() instanceof Medium.Air ? AIR_MODEL_LOWEST_NM : 0;
             int samples = 64;
             for (int s = 0; s <= samples; s++) {
                 double p = (pixels - 1) * (double) s / samples;
                 double x = (p - mid) / half;
                 double dispersion = PolynomialLeastSquares.derivative(a, x) / half;
-                if (!(dispersion * sign > 0)) {
-                    return false;
-                }
-                if (dispersion < searchPrior.minDispersion() - slack
-                        || dispersion > searchPrior.maxDispersion() + slack) {
-                    return false;
-                }
-                double nm = PolynomialLeastSquares.evaluate(a, x);
-                if (!(nm > lowest) || nm > searchPrior.maxWavelengthNm() + margin) {
+                if (!(dispersion * sign > 0)
+                        || !searchPrior.admits(PolynomialLeastSquares.evaluate(a, x), dispersion, floor)) {
                     return false;
                 }
             }
