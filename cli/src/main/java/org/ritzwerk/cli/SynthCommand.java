@@ -568,7 +568,7 @@ final class SynthCommand implements Callable<Integer> {
                 case "blackbody":
                     double t = continuumTemperature == null ? temperature : continuumTemperature;
                     Medium axisMedium = AxisMedium.of(medium);
-                    density = nm -> Continuum.planckPhotonsPerWavelength(axisMedium.toVacuum(nm * 1e-9), t);
+                    density = Continuum.blackbodyPhotons(axisMedium, t);
                     break;
                 default:
                     throw new OptionException("--continuum must be none, flat or blackbody, got '"

@@ -312,7 +312,7 @@ public final class SurveySynthesis {
                 case "file" -> density = fileContinuum;
                 case "blackbody" -> {
                     double t = Double.isNaN(background.temperatureK()) ? temperature : background.temperatureK();
-                    density = nm -> Continuum.planckPhotonsPerWavelength(medium.toVacuum(nm * 1e-9), t);
+                    density = Continuum.blackbodyPhotons(medium, t);
                 }
                 default -> {
                     return;

@@ -2,6 +2,7 @@ package org.ritzwerk.engine.synth;
 
 import java.util.function.DoubleUnaryOperator;
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.medium.Medium;
 
 /**
  * Continuum emission: Planck's law, and the pixel integral of any smooth continuum density
@@ -45,6 +46,20 @@ public final class Continuum {
         positive("temperature", temperature, "K");
         double x = H * C / (wavelength * K * temperature);
         return 2 * C / Math.pow(wavelength, 4) / Math.expm1(x);
+    }
+
+    /**
+     * A blackbody continuum as a scene takes it ({@link Scene.Builder#continuum}): the photon form
+     * of Planck's law ({@link #planckPhotonsPerWavelength}) as a function of a grid's wavelength
+     * in nm in its axis medium, converted to vacuum before the law is applied.
+     *
+     * @param axisMedium  the medium of the grid's wavelengths
+     * @param temperature temperature in K, positive
+     * @return the density, photon radiance per unit wavelength
+     */
+    public static DoubleUnaryOperator blackbodyPhotons(Medium axisMedium, double temperature) {
+        positive("temperature", temperature, "K");
+        return nm -> planckPhotonsPerWavelength(axisMedium.toVacuum(nm * 1e-9), temperature);
     }
 
     /**
