@@ -283,16 +283,16 @@ final class CalibrateCommand implements Callable<Integer> {
     }
 
     /**
-     * Whether a bound of the prior is a vacuum wavelength below the air model's range (200 nm)
-     * while the solution is in air: a detector reaching below 200 nm. Such a lower bound adds
-     * nothing in air (no air wavelength lies below 200 nm), so the prior has no lower bound.
+     * Whether a bound of the prior is a vacuum wavelength below the air model's range (200 nm for
+     * standard air) while the solution is in air: a detector reaching below it. Such a lower bound
+     * adds nothing in air (no air wavelength lies there), so the prior has no lower bound.
      */
     private static boolean belowAirModel(String quantity, Medium solutionMedium) {
-        if (!(solutionMedium instanceof Medium.Air)) {
+        if (!(solutionMedium instanceof Medium.Air air)) {
             return false;
         }
         double hertz = AxisMedium.spectral("--from/--to", quantity).toFrequency().inHertz();
-        return org.ritzwerk.constants.PhysicalConstants.C / hertz < 200e-9;
+        return org.ritzwerk.constants.PhysicalConstants.C / hertz < air.model().minVacuumWavelengthMetres();
     }
 
     private LampMatcher.Prior prior() {
@@ -312,8 +312,9 @@ final class CalibrateCommand implements Callable<Integer> {
                 a = belowAirModel(from, m) ? 0 : AxisMedium.nanometres("--from", from, m);
                 b = belowAirModel(to, m) ? 0 : AxisMedium.nanometres("--to", to, m);
                 if (a == 0 && b == 0) {
-                    throw new OptionException("--from and --to both lie below 200 nm, where air wavelengths are not"
-                            + " defined; calibrate in vacuum (--medium vacuum) for a far-ultraviolet detector");
+                    throw new OptionException("--from and --to both lie below the air model's range (200 nm for"
+                            + " standard air), where air wavelengths are not defined; calibrate in vacuum (--medium"
+                            + " vacuum) for a far-ultraviolet detector");
                 }
             } catch (OptionException e) {
                 throw new OptionException(e.getMessage() + "; give the wavelength range the detector may see", e);
