@@ -3,18 +3,12 @@ package org.ritzwerk.refdata.sweep;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.util.List;
 import org.junit.jupiter.api.Test;
-import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.calibrate.Calibration;
 import org.ritzwerk.engine.calibrate.CalibrationException;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
 import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.LampSet;
-import org.ritzwerk.engine.synth.Instrument;
-import org.ritzwerk.engine.synth.PixelGrid;
-import org.ritzwerk.engine.synth.Scene;
-import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
 
 /**
@@ -31,15 +25,10 @@ class ClippedExposureTest {
     void aClippedExposureIsTakenAsSaturatedAtItsClippingLevel() {
         DataContext data = DataContext.builtIn();
         double[] c = {300, 0.11, -2e-6};
-        LampSet lamp = LampSet.of(List.of(data.lampLines(Species.parse("Cd I")),
-                data.lampLines(Species.parse("Zn I"))), Medium.air());
+        LampSet lamp = LampExposures.lamp(data, "Cd I", "Zn I");
         int solved = 0;
         for (long seed = 1; seed <= 6; seed++) {
-            double[] counts = Scene.builder(PixelGrid.dispersion(c, 3648)).medium(Medium.air())
-                    .instrument(Instrument.ofResolvingPower(4000)).temperature(400).peakCounts(200_000)
-                    .lineList(data.lampLines(Species.parse("Cd I")), data::nucleus)
-                    .lineList(data.lampLines(Species.parse("Zn I")), data::nucleus)
-                    .noise(5, seed).build().render(1).counts();
+            double[] counts = LampExposures.cadmiumZinc(data, c, 3648, 400, 4000, 200_000, 5, seed);
             for (int i = 0; i < counts.length; i++) {
                 counts[i] = Math.min(counts[i], 65535);
             }

@@ -90,11 +90,7 @@ public final class LampExposures {
         while (true) {
             int pixels = new int[] {1024, 2048, 2048, 4096}[random.nextInt(4)];
             String[] drawn = gases != null ? gases : LAMPS[random.nextInt(LAMPS.length)];
-            List<LineList> lists = new ArrayList<>();
-            for (String gas : drawn) {
-                lists.add(data.lampLines(Species.parse(gas)));
-            }
-            LampSet lamp = LampSet.of(lists, Medium.air());
+            LampSet lamp = lamp(data, drawn);
             double start = lowest + (highest - lowest - 190) * random.nextDouble();
             double span = Math.min(120 + 580 * random.nextDouble(), highest - start);
             if (span < 80) {
@@ -194,13 +190,9 @@ public final class LampExposures {
      * @return the lamp gases not in the exposure's lamp, as a lamp set, or null when it used them all
      */
     public LampSet otherGases(Exposure exposure) {
-        List<LineList> lists = new ArrayList<>();
-        for (String gas : new String[] {"Hg I", "Ne I", "Ar I", "Kr I", "Xe I"}) {
-            if (!exposure.lampName().contains(gas)) {
-                lists.add(data.lampLines(Species.parse(gas)));
-            }
-        }
-        return lists.isEmpty() ? null : LampSet.of(lists, Medium.air());
+        String[] others = Arrays.stream(new String[] {"Hg I", "Ne I", "Ar I", "Kr I", "Xe I"})
+                .filter(gas -> !exposure.lampName().contains(gas)).toArray(String[]::new);
+        return others.length == 0 ? null : lamp(data, others);
     }
 
     /**
@@ -210,22 +202,23 @@ public final class LampExposures {
      */
     /**
      * A cadmium-zinc lamp exposure on a spectrometer whose wavelength at pixel p is the
-     * polynomial c (nm, air), drawn from the built-in Cd I and Zn I sets at 500 K as
+     * polynomial c (nm, air), drawn from the built-in Cd I and Zn I sets as
      * {@code synth --lines lamp-cd-i --lines lamp-zn-i} draws it.
      *
      * @param data           the data context
      * @param c              the dispersion's coefficients
      * @param pixels         number of pixels
+     * @param kelvin         the lamp's temperature (its Doppler widths)
      * @param resolvingPower the instrument's
      * @param peakCounts     expected counts of the brightest pixel
      * @param readNoise      read noise, counts
      * @param seed           the noise seed
      * @return the counts
      */
-    static double[] cadmiumZinc(DataContext data, double[] c, int pixels, double resolvingPower, double peakCounts,
-            double readNoise, long seed) {
+    static double[] cadmiumZinc(DataContext data, double[] c, int pixels, double kelvin, double resolvingPower,
+            double peakCounts, double readNoise, long seed) {
         return Scene.builder(PixelGrid.dispersion(c, pixels)).medium(Medium.air())
-                .instrument(Instrument.ofResolvingPower(resolvingPower)).temperature(500).peakCounts(peakCounts)
+                .instrument(Instrument.ofResolvingPower(resolvingPower)).temperature(kelvin).peakCounts(peakCounts)
                 .lineList(data.lampLines(Species.parse("Cd I")), data::nucleus)
                 .lineList(data.lampLines(Species.parse("Zn I")), data::nucleus)
                 .noise(readNoise, seed).build().render(1).counts();

@@ -23,7 +23,7 @@ class NeighbouringLineTest {
     void aPeakHidingTwoLampLinesOfTwoGasesDoesNotPullTheFit() {
         DataContext data = DataContext.builtIn();
         double[] c = {545.7021753, -0.05141008677, -3.967234784e-06};
-        double[] counts = LampExposures.cadmiumZinc(data, c, 3648, 1738.8, 3000, 2.98, 44);
+        double[] counts = LampExposures.cadmiumZinc(data, c, 3648, 500, 1738.8, 3000, 2.98, 44);
         LampSet lamp = LampExposures.lamp(data, "Cd I", "Zn I");
         Calibration cubic = Calibrator.defaults().withDegree(3).calibrate(CalibrationProblem.builder(counts)
                 .lamp(lamp).build());

@@ -27,7 +27,7 @@ class ShortPriorTest {
     void aFitOutsideThePriorOrWithoutFitIsRefused() {
         DataContext data = DataContext.builtIn();
         double[] c = {202.499397, 0.1856893055, 2.440705203e-05};
-        double[] counts = LampExposures.cadmiumZinc(data, c, 2048, 661.6, 10_000, 6.97, 1);
+        double[] counts = LampExposures.cadmiumZinc(data, c, 2048, 500, 661.6, 10_000, 6.97, 1);
         LampSet lamp = LampExposures.lamp(data, "Cd I", "Zn I");
         LampMatcher.Prior shortPrior = new LampMatcher.Prior(200, 670, -1000, 1000);
         CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(lamp).prior(shortPrior).build();

@@ -26,7 +26,7 @@ class WrongLampShareTest {
     void aLoweredShareDoesNotLetTheWrongLampThrough() {
         DataContext data = DataContext.builtIn();
         double[] c = {201.4192528, 0.1157934584, 5.495407762e-06};
-        double[] counts = LampExposures.cadmiumZinc(data, c, 3648, 1188.6, 3000, 4.63, 8);
+        double[] counts = LampExposures.cadmiumZinc(data, c, 3648, 500, 1188.6, 3000, 4.63, 8);
         LampSet wrong = LampExposures.lamp(data, "Ne I", "Ar I");
         for (double share : new double[] {0.6, 0.5, 0.3}) {
             CalibrationException e = assertThrows(CalibrationException.class, () -> Calibrator.defaults()
