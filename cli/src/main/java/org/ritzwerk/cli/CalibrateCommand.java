@@ -18,6 +18,7 @@ import org.ritzwerk.engine.calibrate.DispersionSolution;
 import org.ritzwerk.engine.calibrate.LampMatch;
 import org.ritzwerk.engine.calibrate.LampMatcher;
 import org.ritzwerk.engine.calibrate.LampSet;
+import org.ritzwerk.engine.calibrate.Peaks;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.CalibrationFiles;
 import org.ritzwerk.refdata.DataLines;
@@ -418,15 +419,25 @@ final class CalibrateCommand implements Callable<Integer> {
         return n + " " + noun + (n == 1 ? "" : "s");
     }
 
+    /** How the peaks' centroid uncertainties were scaled, for the report's peak line. */
+    private static String noiseModel(Peaks peaks) {
+        if (peaks.pixelSigmasGiven()) {
+            return "centroid uncertainties from the file's pixel uncertainties";
+        }
+        if (Double.isNaN(peaks.noiseScale())) {
+            return "too few peaks to pool their scatter: each centroid uncertainty is scaled by its own fit's";
+        }
+        return String.format(Locale.ROOT, "pixel variance %.3g times the Poisson model's", peaks.noiseScale());
+    }
+
     private void report(SpectrumFiles.Spectrum spectrum, Calibration calibration) {
         PrintWriter w = spec.commandLine().getOut();
         DispersionSolution solution = calibration.solution();
         int n = spectrum.pixels();
         w.printf(Locale.ROOT, "Spectrum: %s, %d pixels; lamp: %s%n", spectrum.source(), n,
                 String.join(", ", calibration.problem().lamp().setIds()));
-        w.printf(Locale.ROOT, "Peaks found: %d above S/N %.3g (pixel variance %.3g times the Poisson model's)%n",
-                calibration.peaks().size(),
-                calibration.settings().threshold(), calibration.peaks().noiseScale());
+        w.printf(Locale.ROOT, "Peaks found: %d above S/N %.3g (%s)%n", calibration.peaks().size(),
+                calibration.settings().threshold(), noiseModel(calibration.peaks()));
         int images = calibration.firstMatch().secondOrderPeaks().length;
         w.printf(Locale.ROOT, "Paired with lamp lines: %d of the %d strongest peaks matched (%.0f %%)%s%n",
                 calibration.strongMatched(), calibration.strongPeaks(), 100 * calibration.matchedFraction(),

@@ -104,6 +104,36 @@ class CalibrateCommandTest {
                 unit.err());
     }
 
+    /**
+     * A window holding three of the mercury lamp's lines (404.66, 433.92 and 435.83 nm on an
+     * invented 1024-pixel spectrometer, 395 + 0.05 p nm) calibrates with a prior, with a straight
+     * line right within 3 stated uncertainties at the window's middle, from a photon-counting
+     * exposure (no read noise) and from one with read noise. The report states how the centroid
+     * uncertainties were scaled in words: with three peaks it had printed "pixel variance NaN".
+     * Before, the first was refused ("matches 0 of the 3 strongest peaks") and the second after
+     * refinement ("a calibration needs at least 4").
+     */
+    @Test
+    void aWindowWithThreeLampLinesCalibratesWithAPrior(@TempDir Path dir) throws IOException {
+        for (String readNoise : new String[] {"0", "3"}) {
+            Path spectrum = dir.resolve("mercury-" + readNoise + ".csv");
+            CliTest.Run synth = CliTest.run("synth", "--lines", "lamp-hg-i", "--temperature", "5000", "--dispersion",
+                    "395,0.05", "--pixels", "1024", "--resolving-power", "4000", "--medium", "air", "--read-noise",
+                    readNoise, "--seed", "2", "--out", spectrum.toString());
+            assertEquals(0, synth.code(), synth.err());
+            Path out = dir.resolve("solution-" + readNoise + ".json");
+            CliTest.Run run = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Hg I", "--from", "394 nm",
+                    "--to", "447 nm", "--dispersion-range", "0.049,0.051", "--out", out.toString());
+            assertEquals(0, run.code(), run.err());
+            assertTrue(run.out().contains("Solution: degree 1 in air wavelengths, 3 lines used"), run.out());
+            assertFalse(run.out().contains("NaN"), run.out());
+            assertTrue(run.out().contains(readNoise.equals("0") ? "(pixel variance 1.00 times the Poisson model's)"
+                    : "(too few peaks to pool their scatter"), run.out());
+            DispersionSolution solution = CalibrationFiles.read(out).solution();
+            assertEquals(395 + 0.05 * 500, solution.wavelengthAt(500), 3 * solution.wavelengthSigmaAt(500));
+        }
+    }
+
     @Test
     void theCommandGivesWhatTheLibraryJobGives(@TempDir Path dir) throws IOException {
         Path spectrum = lampSpectrum(dir, 12, true);

@@ -29,6 +29,23 @@ final class IdentifierRefinement {
     }
 
     /**
+     * How many lamp lines the first solution puts on the detector: with fewer than
+     * {@link LampMatcher#MIN_MATCHES} there (a few-line lamp, or a window that holds only three of
+     * a lamp's lines), three pairs are all a calibration can have, as the matcher allows.
+     */
+    private static int linesOnDetector(LampLines lines, DispersionSolution solution, int pixels) {
+        double a = solution.wavelengthAt(-0.5);
+        double b = solution.wavelengthAt(pixels - 0.5);
+        double lo = Math.min(a, b);
+        double hi = Math.max(a, b);
+        int count = 0;
+        for (int j = 0; j < lines.size(); j++) {
+            count += lines.wavelength(j) >= lo && lines.wavelength(j) <= hi ? 1 : 0;
+        }
+        return count;
+    }
+
+    /**
      * @param match           the pairing the first solution came from (its strong-peak figures are kept)
      * @param solution        the first solution, in the lines' medium
      * @param peaks           every detected peak
@@ -36,7 +53,8 @@ final class IdentifierRefinement {
      * @param species         the species of each line, for the identifier
      * @param tolerancePixels how far (pixels) a peak may lie from a line to pair, positive
      * @return the refined pairing, sorted by pixel
-     * @throws CalibrationException when fewer than {@link LampMatcher#MIN_MATCHES} pairs remain
+     * @throws CalibrationException when fewer than {@link LampMatcher#MIN_MATCHES} pairs remain (three
+     *         when the first solution puts fewer lamp lines than that on the detector)
      */
     public static LampMatch refine(LampMatch match, DispersionSolution solution, Peaks peaks, LampLines lines,
             Species[] species, double tolerancePixels) {
@@ -91,10 +109,11 @@ final class IdentifierRefinement {
                 m++;
             }
         }
-        if (m < LampMatcher.MIN_MATCHES) {
+        int needed = Math.min(LampMatcher.MIN_MATCHES, Math.max(LampMatcher.MIN_FEW_LINE_MATCHES,
+                linesOnDetector(lines, solution, peaks.pixels())));
+        if (m < needed) {
             throw new CalibrationException(CalibrationException.TOO_FEW_MATCHES, "after refinement only " + m
-                    + " peaks pair with a lamp line without ambiguity; a calibration needs at least "
-                    + LampMatcher.MIN_MATCHES);
+                    + " peaks pair with a lamp line without ambiguity; a calibration needs at least " + needed);
         }
         peakIndex = Arrays.copyOf(peakIndex, m);
         lineIndex = Arrays.copyOf(lineIndex, m);

@@ -52,6 +52,9 @@ import java.util.List;
  * hundreds of degrees of freedom; each fit's own chi^2 / (n - p), with a dozen, would scatter the
  * uncertainties by some 20 % and understate them on average (Student's t). With fewer than 5
  * fits each is scaled by its own reduced chi-square instead. {@link Peaks#noiseScale()} reports F.
+ * An exposure of whole counts with no background noise counted photons: its variances are its
+ * expected counts (gain 1 exactly) and F is 1; the first fit's variance is at least one count there
+ * (Neyman's modified chi-square, common practice), or an empty pixel beside a line would pin it.
  *
  * <p><b>Poor fits.</b> In both modes, a fit whose chi-square (over F) exceeds the 99th percentile
  * of the chi-square distribution (Wilson-Hilferty approximation) has its peaks' covariance
@@ -267,7 +270,26 @@ public final class PeakFinder {
         }
         double[] smooth = smooth(line, smoothing);
         int[] candidates = candidates(line, smooth, saturated, sigma, noise);
-        return fitAll(counts, sigma, saturated, noise, baseline, line, candidates);
+        return fitAll(counts, sigma, saturated, noise, countedPhotons(counts, firstNoise, floor), baseline, line,
+                candidates);
+    }
+
+    /**
+     * Whether the exposure counted photons: whole counts and no background noise (the first
+     * difference noise measured zero). Its pixel variances are then its expected counts exactly
+     * (Poisson, gain 1), and no pooled scale is applied: in the empty wings of its lines the
+     * chi-square terms are mostly 0 and rarely huge, and a median of them says nothing.
+     */
+    private static boolean countedPhotons(double[] counts, double firstNoise, double floor) {
+        if (firstNoise > floor) {
+            return false;
+        }
+        for (double c : counts) {
+            if (c != Math.rint(c)) {
+                return false;
+            }
+        }
+        return true;
     }
 
     private void check(double[] counts, double[] sigma) {
@@ -414,8 +436,8 @@ public final class PeakFinder {
         return Math.max(1, Math.min(MAX_FWHM_ESTIMATE, hi - lo));
     }
 
-    private Peaks fitAll(double[] counts, double[] sigma, boolean[] saturated, double[] noise, double[] baseline,
-            double[] line, int[] candidates) {
+    private Peaks fitAll(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
+            double[] baseline, double[] line, int[] candidates) {
         int n = counts.length;
         int m = candidates.length;
         double[] fwhm = new double[m];
@@ -429,7 +451,7 @@ public final class PeakFinder {
             start[k] = startCentre(line, saturated, c);
             halfWindow[k] = Math.max(3, (int) Math.ceil(fitHalfWidth * fwhm[k]));
         }
-        Collector out = new Collector(m);
+        Collector out = new Collector(m, counted);
         int k = 0;
         while (k < m) {
             int end = k + 1;
@@ -527,7 +549,10 @@ public final class PeakFinder {
                 if (!saturated[i]) {
                     x[u] = i;
                     y[u] = line[i];
-                    s[u] = localSigma(sigma, noise, line[i], i);
+                    // First pass: the observed counts stand in for the line's Poisson variance, at
+                    // least one count (Neyman's modified chi-square, common practice): a pixel with no
+                    // counts where the line still puts some would otherwise pin the fit.
+                    s[u] = sigma != null ? sigma[i] : Math.sqrt(noise[i] * noise[i] + Math.max(1, line[i]));
                     u++;
                 }
             }
@@ -764,7 +789,11 @@ public final class PeakFinder {
         private int[] unfitted = new int[4];
         private int unfittedSize;
 
-        Collector(int capacity) {
+        /** Whether the exposure counted photons (see find): the Poisson variances need no scale. */
+        private final boolean counted;
+
+        Collector(int capacity, boolean counted) {
+            this.counted = counted;
             columns = new double[8][Math.max(1, capacity)];
             flags = new int[Math.max(1, capacity)];
             fitOf = new int[Math.max(1, capacity)];
@@ -810,7 +839,7 @@ public final class PeakFinder {
             // The pooled scale F (see the class comment), then each fit's scale.
             double pooled = 1;
             boolean perFit = false;
-            if (!sigmasGiven) {
+            if (!sigmasGiven && !counted) {
                 if (fits >= MIN_FITS_TO_POOL) {
                     double[] reduced = new double[fits];
                     int[] dofs = Arrays.copyOf(fitDof, fits);
