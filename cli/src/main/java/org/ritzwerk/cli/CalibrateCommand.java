@@ -425,7 +425,8 @@ final class CalibrateCommand implements Callable<Integer> {
             return "centroid uncertainties from the file's pixel uncertainties";
         }
         if (Double.isNaN(peaks.noiseScale())) {
-            return "too few peaks to pool their scatter: each centroid uncertainty is scaled by its own fit's";
+            return "too few peaks to pool their scatter: each centroid uncertainty is widened by its own fit's,"
+                    + " never narrowed";
         }
         return String.format(Locale.ROOT, "pixel variance %.3g times the Poisson model's", peaks.noiseScale());
     }

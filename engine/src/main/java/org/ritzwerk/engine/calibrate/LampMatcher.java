@@ -155,6 +155,8 @@ public final class LampMatcher {
     private static final int VERIFY_PASSES = 4;
     /** Pairs that offset, slope and curvature can always be made to meet; not evidence. */
     private static final int FITTED_PAIRS = 3;
+    /** Pairs that offset and slope can always be made to meet. */
+    private static final int LINE_PAIRS = 2;
     /** Open strong peaks beyond each end of the pairs that growth looks at. */
     private static final int FRONTIER = 3;
     /** Pairs at which a growth is compared with those already made. */
@@ -517,9 +519,10 @@ public final class LampMatcher {
     /**
      * The probability that chance alone puts at least as many strong peaks within the precise
      * tolerance of a line, beyond the pairs the polynomial can be made to meet (its free pairs:
-     * {@value #FITTED_PAIRS} for a quadratic, or a cubic a quadratic does as well as, else 4):
-     * Poisson with the candidate's expected chance matches, P(X &gt;= m) = P(m, lambda), the
-     * regularised lower incomplete gamma function (common practice).
+     * {@value #LINE_PAIRS} when a straight line meets them all, {@value #FITTED_PAIRS} for a
+     * quadratic, or a cubic a quadratic does as well as, else 4): Poisson with the candidate's
+     * expected chance matches, P(X &gt;= m) = P(m, lambda), the regularised lower incomplete gamma
+     * function (common practice).
      */
     static double chanceProbability(Candidate c) {
         int beyondFit = c.preciseMatched - c.freePairs;
@@ -1130,23 +1133,24 @@ public final class LampMatcher {
                 double slope = Math.abs(PolynomialLeastSquares.derivative(a, x) / half);
                 chance += Math.min(1, 2 * precise * lineDensity(PolynomialLeastSquares.evaluate(a, x), slope));
             }
-            return new Candidate(a, strongMatched, score, preciseMatched, precise, chance, sign,
-                    freePairs(a, lineOf, precise, preciseMatched));
+            int free = freePairs(a, lineOf, precise, preciseMatched);
+            return new Candidate(a, strongMatched, score, preciseMatched, precise,
+                    free == LINE_PAIRS ? chance + seedOdds(precise) : chance, sign, free);
         }
 
         /**
          * How many of the precise pairs the polynomial could have been made to meet whatever the
-         * lines: its coefficients' count, unless a polynomial of degree 2 (offset, slope and
-         * curvature) meets every precise pair within the same distance, in which case 3. A cubic
-         * meets four pairs exactly, so with it only the pairs beyond four are evidence (a zinc and
-         * cadmium spectrum was paired with neon and argon lines by a cubic through seven peaks
-         * and accepted under a lowered share, 3,587 pixels off); where a quadratic does as well the
-         * cubic term is not what made the pairs meet.
+         * lines: its coefficients' count, unless a polynomial of lower degree meets every precise
+         * pair within the same distance: then that one's count, {@value #FITTED_PAIRS} for a
+         * quadratic and {@value #LINE_PAIRS} for a straight line. A cubic meets four pairs exactly,
+         * so with it only the pairs beyond four are evidence (a zinc and cadmium spectrum was
+         * paired with neon and argon lines by a cubic through seven peaks and accepted under a
+         * lowered share, 3,587 pixels off); where a quadratic does as well the cubic term is not
+         * what made the pairs meet, and where a straight line does, no curvature is. (With a
+         * straight line the seed's middle pair, chosen because it lay near the line through the
+         * outer two, is counted at its own odds: see {@link #seedOdds}.)
          */
         private int freePairs(double[] a, int[] lineOf, double precise, int preciseMatched) {
-            if (a.length <= FITTED_PAIRS) {
-                return FITTED_PAIRS;
-            }
             int n = centre.length;
             double[] x = new double[n];
             double[] nm = new double[n];
@@ -1160,20 +1164,35 @@ public final class LampMatcher {
                     used += use[k] ? 1 : 0;
                 }
             }
-            if (used < FITTED_PAIRS + 1) {
-                return a.length;
-            }
-            PolynomialLeastSquares.Solution quadratic = PolynomialLeastSquares.fit(x, nm, null, use, 2);
-            if (quadratic == null) {
-                return a.length;
-            }
-            int met = 0;
-            for (int k = 0; k < n; k++) {
-                if (use[k] && Math.abs(residualPixels(quadratic.coefficients(), centre[k], nm[k])) <= precise) {
-                    met++;
+            int own = Math.max(a.length, FITTED_PAIRS);
+            for (int degree = 1; degree + 1 < own && used > degree + 1; degree++) {
+                PolynomialLeastSquares.Solution lower = PolynomialLeastSquares.fit(x, nm, null, use, degree);
+                if (lower == null) {
+                    continue;
+                }
+                int met = 0;
+                for (int k = 0; k < n; k++) {
+                    if (use[k] && Math.abs(residualPixels(lower.coefficients(), centre[k], nm[k])) <= precise) {
+                        met++;
+                    }
+                }
+                if (met >= preciseMatched) {
+                    return degree + 1;
                 }
             }
-            return met >= preciseMatched ? FITTED_PAIRS : a.length;
+            return own;
+        }
+
+        /**
+         * The chance that a seed's middle pair lies within {@code precise} pixels of the straight
+         * line through the outer two, given that the seed was chosen because it lay within the
+         * seed tolerance ({@link #tolerance} at least): at most precise / tolerance, as for a
+         * position spread evenly over the window it was chosen from (common practice). A straight
+         * line's free pairs ({@value #LINE_PAIRS}) leave that pair as evidence; these odds, not
+         * the line density's, are its chance.
+         */
+        private double seedOdds(double precise) {
+            return Math.min(1, precise / tolerance);
         }
 
         /**
@@ -1323,7 +1342,7 @@ public final class LampMatcher {
                 int worst = -1;
                 double worstMiss = tolerance;
                 for (int k = 0; k < centre.length; k++) {
-                    if (matched[k] < 0 || window[matched[k]] < 0) {
+                    if (matched[k] < 0 || window[matched[k]] < 0 || pinnedByPrior(k, matched)) {
                         continue;
                     }
                     double x = (centre[k] - mid) / half;
@@ -1349,6 +1368,48 @@ public final class LampMatcher {
                 a = polynomial.coefficients();
             }
             return a;
+        }
+
+        /**
+         * Whether the prior's dispersion bounds, from the nearest other pair, leave this pair's
+         * line the only lamp line its peak can be: every wavelength the peak may see, from that
+         * pair's line with any local dispersion the prior admits (with its 5 % slack) plus the
+         * tolerance, holds no other line of the window. Such a pair is not dropped for want of
+         * confirmation by the other pairs: in a window of four lines with a tight prior, the one
+         * line far from the rest is unconfirmable by them, yet nothing else can be there. (The
+         * calibration's end check then states that the solution near it rests on that pairing.)
+         * False without a pair to start from or when the bounds allow either direction.
+         */
+        private boolean pinnedByPrior(int k, int[] matched) {
+            double slack = 0.05 * Math.max(Math.abs(searchPrior.minDispersion()), Math.abs(searchPrior.maxDispersion()));
+            double low = searchPrior.minDispersion() - slack;
+            double high = searchPrior.maxDispersion() + slack;
+            if (low * high <= 0) {
+                return false;
+            }
+            int nearest = -1;
+            for (int j = 0; j < centre.length; j++) {
+                if (j != k && matched[j] >= 0 && window[matched[j]] >= 0
+                        && (nearest < 0 || Math.abs(centre[j] - centre[k]) < Math.abs(centre[nearest] - centre[k]))) {
+                    nearest = j;
+                }
+            }
+            if (nearest < 0) {
+                return false;
+            }
+            double step = centre[k] - centre[nearest];
+            double from = windowNm[matched[nearest]] + Math.min(low * step, high * step) - tolerance * Math.abs(high);
+            double to = windowNm[matched[nearest]] + Math.max(low * step, high * step) + tolerance * Math.abs(high);
+            double own = windowNm[matched[k]];
+            if (own < from || own > to) {
+                return false;
+            }
+            for (int l = lowerBound(from); l < windowNm.length && windowNm[l] <= to; l++) {
+                if (l != matched[k] && window[l] >= 0) {
+                    return false;
+                }
+            }
+            return true;
         }
 
         /** Re-matches the winner against every peak and line until the pairs settle. */

@@ -51,7 +51,8 @@ import java.util.List;
  * Hilferty, PNAS 17, 684 (1931)), so that F is 1 when the variances are right. One pooled F has
  * hundreds of degrees of freedom; each fit's own chi^2 / (n - p), with a dozen, would scatter the
  * uncertainties by some 20 % and understate them on average (Student's t). With fewer than 5
- * fits each is scaled by its own reduced chi-square instead. {@link Peaks#noiseScale()} reports F.
+ * fits each is scaled by its own reduced chi-square instead, but never below 1 (a handful of
+ * degrees of freedom may widen the model's variances, not narrow them). {@link Peaks#noiseScale()} reports F.
  * An exposure of whole counts with no background noise counted photons: its variances are its
  * expected counts (gain 1 exactly) and F is 1; the first fit's variance is at least one count there
  * (Neyman's modified chi-square, common practice), or an empty pixel beside a line would pin it.
@@ -858,7 +859,9 @@ public final class PeakFinder {
             for (int f = 0; f < fits; f++) {
                 double reduced = fitChiSquare[f] / fitDof[f];
                 if (perFit) {
-                    scale[f] = reduced;
+                    // A fit's own reduced chi-square has a handful of degrees of freedom: it may
+                    // widen the model's variances but never narrow them.
+                    scale[f] = Math.max(1, reduced);
                 } else if (reduced / pooled > reducedChiSquareQuantile(Z99, fitDof[f])) {
                     scale[f] = reduced;
                     poor[f] = true;

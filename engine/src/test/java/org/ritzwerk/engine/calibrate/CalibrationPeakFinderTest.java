@@ -43,7 +43,10 @@ class CalibrationPeakFinderTest {
             // below is that for s = 3.1 / 2.35482 pixels, from the standard normal table.
             double s = 3.1 / (2 * Math.sqrt(2 * Math.log(2)));
             assertEquals(1e4 * (2 * normalCdf(0.5 / s) - 1), peaks.height(0), 1e-3, "height");
-            assertTrue(peaks.centreSigma(0) < 1e-6, "a noiseless fit is sharp: " + peaks.centreSigma(0));
+            // Exact, but its stated uncertainty is the noise model's (one fit's zero scatter never
+            // narrows it): near the Gaussian's standard deviation over the square root of the
+            // counts, 1.316 / 100 pixel (common practice), a little more for the pixel sampling.
+            assertEquals(s / Math.sqrt(1e4), peaks.centreSigma(0), 0.3 * s / Math.sqrt(1e4), "the model's uncertainty");
             assertTrue(peaks.flags(0).isEmpty(), "no flags: " + peaks.flags(0));
             assertEquals(0, peaks.unfitted().length);
         }

@@ -133,15 +133,8 @@ class CalibratorTest {
      */
     @Test
     void aWindowWithThreeOfTheLampsLinesCalibratesWithAStraightLine() {
-        Species hg = Species.parse("Hg I");
         double[] nm = {253.6517, 404.6563, 433.9223, 435.8328, 546.0735};
-        double[] strength = {1000, 400, 60, 1000, 500};
-        LineList.Builder list = LineList.builder(new DataSetInfo("test-mercury", DataKind.LAMP_LINES, "test mercury",
-                "1", Provenance.computedBy("test"), List.of(hg)), Unit.NANOMETRE, Medium.air(), "");
-        for (int i = 0; i < nm.length; i++) {
-            list.add(hg, nm[i], Double.NaN, strength[i], null, Double.NaN, null, null, null);
-        }
-        LampSet lamp = LampSet.of(List.of(list.build()), Medium.air());
+        LampSet lamp = mercury(nm, new double[] {1000, 400, 60, 1000, 500});
         PixelGrid grid = PixelGrid.linear(395 - 0.025, 395 + 0.05 * 1023.5, 1024);
         double[] flux = {0, 1.03e4, 1.6e3, 2.6e4, 0};
         double[] fwhm = new double[nm.length];
@@ -162,6 +155,95 @@ class CalibratorTest {
                         "read noise " + readNoise + ", pixel " + p);
             }
             assertTrue(solution.wavelengthSigmaAt(500) < 0.05 * 0.05, "stated " + solution.wavelengthSigmaAt(500));
+        }
+    }
+
+    /** Mercury lines (air, nm; handbook wavelengths, from memory) and invented relative strengths. */
+    private static LampSet mercury(double[] nm, double[] strength) {
+        Species hg = Species.parse("Hg I");
+        LineList.Builder list = LineList.builder(new DataSetInfo("test-mercury", DataKind.LAMP_LINES, "test mercury",
+                "1", Provenance.computedBy("test"), List.of(hg)), Unit.NANOMETRE, Medium.air(), "");
+        for (int i = 0; i < nm.length; i++) {
+            list.add(hg, nm[i], Double.NaN, strength[i], null, Double.NaN, null, null, null);
+        }
+        return LampSet.of(List.of(list.build()), Medium.air());
+    }
+
+    /** Counts of an invented 1024-pixel spectrometer seeing 400 + 0.15 p nm, lines 1.9 pixels wide. */
+    private static double[] window400(double[] nm, double[] flux, double readNoise, long seed) {
+        PixelGrid grid = PixelGrid.linear(400 - 0.075, 400 + 0.15 * 1023.5, 1024);
+        double[] fwhm = new double[nm.length];
+        java.util.Arrays.fill(fwhm, 1.9 * 0.15);
+        double[] expected = new double[1024];
+        new LineRenderer(grid, Instrument.ideal(), 12).render(nm, flux, fwhm, new double[nm.length], expected);
+        double[] counts = new double[1024];
+        Noise.apply(expected, readNoise, seed, counts);
+        return counts;
+    }
+
+    /**
+     * A window of four lamp lines: 400 + 0.15 p nm holds mercury's 404.66, 433.92, 435.83 and
+     * 546.07 nm lines (the last 735 pixels from the others). With a tight prior (0.149 to 0.151
+     * nm per pixel) every one of 16 exposures calibrates with a straight line within 0.05 pixel
+     * of the truth; without one each is solved as right or refused, never wrong. Before, every
+     * such window was refused, with the prior too: the chance test counted three of the four
+     * pairs as made by the polynomial whatever the lines (now two where a straight line meets
+     * them all, the seed's middle pair at its own odds), and the leave-one-out check dropped the
+     * far line, which three lines 200 pixels apart cannot confirm (now kept when the prior's
+     * dispersion bounds leave it the only line its peak can be).
+     */
+    @Test
+    void aWindowOfFourLinesCalibratesWithATightPrior() {
+        LampSet lamp = mercury(new double[] {253.6517, 404.6563, 433.9223, 435.8328, 546.0735, 576.9598},
+                new double[] {1000, 400, 60, 1000, 500, 50});
+        double[] nm = {404.6563, 433.9223, 435.8328, 546.0735};
+        double[] flux = {8.9e3, 1.3e3, 2.2e4, 1.1e4};
+        LampMatcher.Prior prior = new LampMatcher.Prior(399, 555, 0.149, 0.151);
+        int solvedWithout = 0;
+        for (long seed = 1; seed <= 8; seed++) {
+            for (double readNoise : new double[] {0, 3}) {
+                double[] counts = window400(nm, flux, readNoise, seed);
+                Calibrator calibrator = Calibrator.defaults().withNegativeCountsAllowed(readNoise > 0);
+                Calibration c = calibrator.calibrate(CalibrationProblem.builder(counts).lamp(lamp).prior(prior)
+                        .source("seed " + seed).build());
+                assertEquals(1, c.solution().degree(), "seed " + seed);
+                assertEquals(4, c.solution().usedCount(), "seed " + seed);
+                for (int p = 0; p < 1024; p += 31) {
+                    assertEquals(400 + 0.15 * p, c.solution().wavelengthAt(p), 0.05 * 0.15, "seed " + seed + " at " + p);
+                }
+                try {
+                    Calibration free = calibrator.calibrate(CalibrationProblem.builder(counts).lamp(lamp).build());
+                    for (int p = 0; p < 1024; p += 31) {
+                        assertEquals(400 + 0.15 * p, free.solution().wavelengthAt(p), 0.05 * 0.15, "no prior");
+                    }
+                    solvedWithout++;
+                } catch (CalibrationException refused) {
+                    assertTrue(refused.getMessage().contains("strongest peaks"), refused.getMessage());
+                }
+            }
+        }
+        assertTrue(solvedWithout > 0, "some windows are solved without a prior too");
+    }
+
+    /**
+     * The same window without its 546.07 nm line and with a foreign line 2.3 pixels beside its
+     * place (546.42 nm, invented): the only line the prior allows there is 546.07, but a straight
+     * line cannot meet the four pairs within their precision, so the chance test counts three as
+     * the polynomial's own and the pairing is refused, with the prior as without it.
+     */
+    @Test
+    void aForeignLineBesideAMissingFarLineIsRefused() {
+        LampSet lamp = mercury(new double[] {253.6517, 404.6563, 433.9223, 435.8328, 546.0735, 576.9598},
+                new double[] {1000, 400, 60, 1000, 500, 50});
+        double[] nm = {404.6563, 433.9223, 435.8328, 546.42};
+        double[] flux = {8.9e3, 1.3e3, 2.2e4, 1.1e4};
+        for (long seed = 1; seed <= 4; seed++) {
+            double[] counts = window400(nm, flux, 3, seed);
+            CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(lamp)
+                    .prior(new LampMatcher.Prior(399, 555, 0.149, 0.151)).build();
+            CalibrationException refused = assertThrows(CalibrationException.class,
+                    () -> Calibrator.defaults().withNegativeCountsAllowed(true).calibrate(problem));
+            assertEquals(CalibrationException.LAMP_MISMATCH, refused.code(), refused.getMessage());
         }
     }
 
