@@ -1,8 +1,10 @@
 package org.ritzwerk.engine.calibrate;
 
+import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashMap;
 import java.util.HashSet;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
@@ -469,7 +471,7 @@ public final class LampMatcher {
                 "the lamp lines (%s) do not explain the spectrum: the best pairing matches %d of the %d strongest "
                         + "peaks (%.0f%%; %.0f%% required), %d of them within %.2f pixels of their lines where chance "
                         + "alone would put %.1f (probability %.2g for one pairing, so %.2g expected by chance"
-                        + " among the %d distinct pairings tried; at most %.2g accepted), %s",
+                        + " among the %d distinct solutions tried; at most %.2g accepted), %s",
                 span(lines), shown.strongMatched, shownSearch.strong.length,
                 100.0 * shown.strongMatched / shownSearch.strong.length, 100 * minInlierFraction, shown.preciseMatched,
                 shown.preciseTolerance, shown.chance, chanceProbability(shown),
@@ -647,7 +649,9 @@ public final class LampMatcher {
         private final double[] priorSigma;
         private final CurvedPolynomial polynomial;
         private long hypotheses;
+        /** Distinct solutions verified (see {@link #signature}): the trials the chance test counts. */
         private int evaluated;
+        private final Set<List<Long>> solutions = new HashSet<>();
         private int mostPairs;
         private int[] takenMark = new int[0];
         private int stamp;
@@ -863,7 +867,9 @@ public final class LampMatcher {
             }
             Candidate result = verify(polynomial.coefficients(), sign);
             verified.put(key, result);
-            evaluated++;
+            if (result != null && solutions.add(signature(result.coefficients))) {
+                evaluated++;
+            }
             return result;
         }
 
@@ -1410,6 +1416,23 @@ public final class LampMatcher {
                 }
             }
             return true;
+        }
+
+        /**
+         * Where a verified polynomial puts five pixels across the detector (its ends, quarters
+         * and middle), in units of the tolerance at its mid-detector dispersion, rounded: two
+         * pairings whose solutions agree within about a tolerance everywhere are one trial of the
+         * chance test, not two (seeds of one solution grow into many pairings). Rounding may
+         * split one solution into two trials, never merge two distinct ones that differ by more
+         * than two tolerances somewhere.
+         */
+        private List<Long> signature(double[] a) {
+            double unit = tolerance * Math.abs(PolynomialLeastSquares.derivative(a, 0) / half);
+            List<Long> key = new ArrayList<>(5);
+            for (int q = 0; q <= 4; q++) {
+                key.add(Math.round(PolynomialLeastSquares.evaluate(a, -1 + 0.5 * q) / unit));
+            }
+            return key;
         }
 
         /** Re-matches the winner against every peak and line until the pairs settle. */

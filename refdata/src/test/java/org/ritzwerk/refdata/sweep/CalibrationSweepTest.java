@@ -96,8 +96,9 @@ class CalibrationSweepTest {
      * solved. Since peaks may be second-order images, seed 94 (11 ghosts in its window) is refused
      * again, safely: the images of the Hg and Kr lines below 495 nm crowd its window, so its right
      * pairing's 8 pairs within 0.17 pixel are met by 0.2 chance matches, probability 6.4e-6 over
-     * 4809 pairings tried, 0.031 in all where 0.01 is accepted. With images left out it is solved as
-     * before.
+     * 4809 pairings tried, 0.031 in all where 0.01 is accepted (over the 1595 distinct solutions
+     * those pairings make, the trials counted now, 0.0102: still refused). With images left out it
+     * is solved as before.
      */
     @Test
     void aLoneEndPairTheOthersDoNotConfirmIsDropped() {
@@ -136,7 +137,7 @@ class CalibrationSweepTest {
      * are refused again since the chance test counts as evidence only the pairs beyond the four a
      * cubic meets by itself, where a quadratic cannot meet them as well (0.042, 0.057 and 0.014
      * expected by chance in all): right pairings, but not told from chance at the 0.01 the test
-     * accepts.
+     * accepts. Seed 253 is solved again since the trials are counted as distinct solutions.
      */
     @Test
     void secondOrderGhostsAreExplainedByTheLamp() {
