@@ -171,11 +171,8 @@ final class CalibrateCommand implements Callable<Integer> {
         CalibrationProblem problem = CalibrationProblem.builder(spectrum.counts()).sigmas(spectrum.sigmas())
                 .lamp(lampSet(AxisMedium.of(medium))).prior(prior()).source(spectrum.source()).build();
         Calibration calibration = calibrator().calibrate(problem);
-        if (!Double.isNaN(calibration.inferredSaturationLevel())) {
-            spec.commandLine().getErr().println("note: several pixels hold exactly the exposure's highest count, "
-                    + OptionRules.show(calibration.inferredSaturationLevel()) + ": the exposure looks clipped there, so"
-                    + " that is taken as the saturation level (peaks reaching it are centred from their wings; give"
-                    + " --saturation to set the level)");
+        for (String note : calibration.notes()) {
+            spec.commandLine().getErr().println("note: " + note);
         }
         DispersionSolution solution = calibration.solution();
         String description = calibration.description();
@@ -383,25 +380,8 @@ final class CalibrateCommand implements Callable<Integer> {
         } catch (IllegalArgumentException e) {
             throw new OptionException("--lamp/--lines: " + e.getMessage(), e);
         }
-        for (DataLines.LevelLamp gas : assembled.fromLevels()) {
-            LampSet rated = gas.lamp();
-            spec.commandLine().getErr().println("note: " + gas.species().notation() + ": no lamp set; using the "
-                    + gas.components() + " Ritz lines of " + rated.setIds() + " ranked by g_u A (equally populated"
-                    + " upper states; " + rated.withoutRate() + " lines without an A value and "
-                    + rated.outsideMedium() + " outside the " + solutionMedium.label() + " model's range left"
-                    + " out), as " + rated.size() + " lines at resolving power " + OptionRules.show(
-                            gas.resolvingPower()));
-        }
-        LampSet fromLists = assembled.fromLists();
-        if (fromLists != null && fromLists.duplicatesMerged() > 0) {
-            spec.commandLine().getErr().println("note: " + fromLists.duplicatesMerged() + " lines of "
-                    + fromLists.setIds() + " repeat an earlier list's line of the same species (within 1e-4 nm) and"
-                    + " are used once");
-        }
-        if (fromLists != null && fromLists.outsideMedium() > 0) {
-            spec.commandLine().getErr().println("note: " + fromLists.outsideMedium() + " lines of "
-                    + fromLists.setIds() + " lie outside the range of the " + solutionMedium.label() + " model (far"
-                    + " ultraviolet or infrared) and are left out; " + fromLists.size() + " lines are used");
+        for (String note : assembled.notes(solutionMedium)) {
+            spec.commandLine().getErr().println("note: " + note);
         }
         LampSet lamp = assembled.lamp();
         if (minStrength == null) {
@@ -461,16 +441,6 @@ final class CalibrateCommand implements Callable<Integer> {
                 + " (a wrong pairing at an end shows only when it is well beyond this)%n",
                 confirmation(calibration.endConfirmationPixels(false)), calibration.endConfirmationAtPixel(false),
                 confirmation(calibration.endConfirmationPixels(true)), calibration.endConfirmationAtPixel(true));
-        for (boolean high : new boolean[] {false, true}) {
-            if (calibration.restsOnItsEndLine(high)) {
-                double check = calibration.endConfirmationPixels(high);
-                spec.commandLine().getErr().printf(Locale.ROOT, "note: the outermost line at pixel %.1f is checked by"
-                        + " the other lines %s; near it the solution rests on that one pairing (its stated"
-                        + " uncertainty assumes the pairing is right; --required-precision refuses such solutions)%n",
-                        calibration.endConfirmationAtPixel(high), Double.isNaN(check) ? "not at all"
-                                : String.format(Locale.ROOT, "only to +-%.3g pixel", check));
-            }
-        }
         w.println();
         LampMatch match = calibration.match();
         LampMatch saturatedPairs = calibration.saturatedPairs();

@@ -187,6 +187,39 @@ public final class DataLines {
             Objects.requireNonNull(lamp, "lamp");
             fromLevels = List.copyOf(fromLevels);
         }
+
+        /**
+         * What a user should know about how the lamp was made, one sentence each: a gas built
+         * from its level list (how many lines, ranked how, left out why, blended at what
+         * resolving power), lines of the lists that repeat an earlier list's line, lines outside
+         * the medium's range. The {@code calibrate} command prints them as notes; the Spark
+         * operation puts them in each row's notes.
+         *
+         * @param medium the medium the lamp was assembled in (as given to
+         *               {@link DataLines#calibrationLamp})
+         * @return the notes, possibly none
+         */
+        public List<String> notes(Medium medium) {
+            List<String> notes = new java.util.ArrayList<>();
+            for (LevelLamp gas : fromLevels) {
+                LampSet rated = gas.lamp();
+                notes.add(gas.species().notation() + ": no lamp set; using the " + gas.components() + " Ritz lines of "
+                        + rated.setIds() + " ranked by g_u A (equally populated upper states; " + rated.withoutRate()
+                        + " lines without an A value and " + rated.outsideMedium() + " outside the " + medium.label()
+                        + " model's range left out), as " + rated.size() + " lines at resolving power "
+                        + java.math.BigDecimal.valueOf(gas.resolvingPower()).stripTrailingZeros().toPlainString());
+            }
+            if (fromLists != null && fromLists.duplicatesMerged() > 0) {
+                notes.add(fromLists.duplicatesMerged() + " lines of " + fromLists.setIds() + " repeat an earlier list's"
+                        + " line of the same species (within 1e-4 nm) and are used once");
+            }
+            if (fromLists != null && fromLists.outsideMedium() > 0) {
+                notes.add(fromLists.outsideMedium() + " lines of " + fromLists.setIds() + " lie outside the range of the "
+                        + medium.label() + " model (far ultraviolet or infrared) and are left out; " + fromLists.size()
+                        + " lines are used");
+            }
+            return notes;
+        }
     }
 
     /**

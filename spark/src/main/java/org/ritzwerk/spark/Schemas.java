@@ -190,7 +190,11 @@ public final class Schemas {
      * (how well the other fitted lines predict each outermost line's pixel, the engine's
      * {@code Calibration.endConfirmationPixels}; null when too few lines remain for the degree);
      * {@code failure_code} and {@code failure} when the job refused
-     * the exposure (every other column but id and pixels then null).
+     * the exposure (every other column but id, pixels and notes then null); {@code notes} (what the
+     * {@code calibrate} command prints as notes: how a lamp without a lamp set was built from its
+     * level list, lines of the lists used once or left out, a saturation level taken from the
+     * exposure, an end where the solution rests on one pairing; empty when there is nothing to
+     * say).
      */
     public static final StructType CALIBRATIONS = struct(
             required("id", DataTypes.StringType),
@@ -219,7 +223,8 @@ public final class Schemas {
             optional("end_check_low_pixels", DataTypes.DoubleType),
             optional("end_check_high_pixels", DataTypes.DoubleType),
             optional("failure_code", DataTypes.StringType),
-            optional("failure", DataTypes.StringType));
+            optional("failure", DataTypes.StringType),
+            optional("notes", STRINGS));
 
     /**
      * Input of applying calibrations, one row per science spectrum: {@code id} string;

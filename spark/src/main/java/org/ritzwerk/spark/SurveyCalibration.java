@@ -138,6 +138,7 @@ public final class SurveyCalibration {
         private final LampSet lamp;
         private final Calibrator calibrator;
         private final LampMatcher.Prior prior;
+        private final List<String> lampNotes;
 
         Setup(CalibrationParameters p) {
             DataContext data = Setups.context(p.dataFiles());
@@ -151,8 +152,11 @@ public final class SurveyCalibration {
             }
             // As the calibrate command assembles its lamp (gases with only a level list, such as He I,
             // ranked by g_u A and blended at the resolving power).
-            LampSet all = DataLines.calibrationLamp(data, gases, lists, Medium.parse(p.medium()), p.resolvingPower())
-                    .lamp();
+            Medium medium = Medium.parse(p.medium());
+            DataLines.CalibrationLamp assembled = DataLines.calibrationLamp(data, gases, lists, medium,
+                    p.resolvingPower());
+            this.lampNotes = assembled.notes(medium);
+            LampSet all = assembled.lamp();
             this.lamp = p.minStrength() == null ? all : all.atLeast(StrengthClass.fromId(p.minStrength()));
             this.calibrator = p.calibrator();
             this.prior = p.prior();
@@ -170,7 +174,7 @@ public final class SurveyCalibration {
             } catch (RitzwerkException e) {
                 return Catalyst.row(Catalyst.utf8(id), pixels, null, null, null, null, null, null, null, null, null,
                         null, null, null, null, null, null, null, null, null, null, null, null, null, null,
-                        Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()));
+                        Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()), notes(lampNotes));
             }
             DispersionSolution solution = calibration.solution();
             DispersionPolynomial polynomial = solution.polynomial();
@@ -196,7 +200,19 @@ public final class SurveyCalibration {
                     calibration.strongPeaks(), calibration.strongMatched(), finite(calibration.matchedFraction()),
                     finite(calibration.coverage()), calibration.saturatedPeaks(), Catalyst.array(lines),
                     Catalyst.utf8(calibration.description()), finite(calibration.endConfirmationPixels(false)),
-                    finite(calibration.endConfirmationPixels(true)), null, null);
+                    finite(calibration.endConfirmationPixels(true)), null, null,
+                    notes(lampNotes, calibration.notes()));
+        }
+
+        @SafeVarargs
+        private static Object notes(List<String>... parts) {
+            List<Object> all = new ArrayList<>();
+            for (List<String> part : parts) {
+                for (String note : part) {
+                    all.add(Catalyst.utf8(note));
+                }
+            }
+            return Catalyst.array(all.toArray());
         }
 
         private static Double finite(double value) {

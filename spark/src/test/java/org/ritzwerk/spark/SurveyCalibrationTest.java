@@ -103,6 +103,7 @@ class SurveyCalibrationTest {
             assertEquals(c.description(), row.getString(22));
             assertEquals(c.endConfirmationPixels(false), row.isNullAt(23) ? Double.NaN : row.getDouble(23));
             assertEquals(c.endConfirmationPixels(true), row.isNullAt(24) ? Double.NaN : row.getDouble(24));
+            assertEquals(c.notes(), row.getList(row.fieldIndex("notes")), id);
             // The saved-file path of the README: write, read, apply.
             Path file = folder.resolve(id + ".json");
             CalibrationFiles.write(file, s, counts.length, c.description(), c.pairLabels());
@@ -206,6 +207,12 @@ class SurveyCalibrationTest {
             assertArrayEquals(c.solution().polynomial().coefficients(), doubles(row.getList(6)), "R " + r);
             assertEquals(c.pairLabels(), row.getList(21));
             assertTrue(c.pairLabels().stream().anyMatch(l -> l.contains("blended")), "587.6 nm as one line");
+            // The lamp's making is said in the row, as the command says it in a note.
+            List<String> notes = new ArrayList<>(org.ritzwerk.refdata.DataLines.calibrationLamp(data, List.of(he),
+                    List.of(), Medium.air(), r).notes(Medium.air()));
+            notes.addAll(c.notes());
+            assertEquals(notes, row.getList(row.fieldIndex("notes")), "R " + r);
+            assertTrue(notes.get(0).startsWith("He I: no lamp set; using the "), notes.get(0));
         }
         org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
                 () -> CalibrationParameters.of(List.of("He I"), List.of()).withResolvingPower(0.5));

@@ -2,6 +2,7 @@ package org.ritzwerk.engine.calibrate;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 
 /**
  * The result of a {@link Calibrator}: the peaks found, the first pairing and the refined one, the
@@ -87,6 +88,34 @@ public final class Calibration {
      */
     public double endConfirmationAtPixel(boolean high) {
         return endConfirmation[high ? 3 : 1];
+    }
+
+    /**
+     * What a user should know beside the figures, one sentence each: a saturation level taken
+     * from the exposure itself ({@link #inferredSaturationLevel}), and each end where the solution
+     * rests on one pairing ({@link #restsOnItsEndLine}). The {@code calibrate} command prints them
+     * as notes; the Spark operation puts them in each row's notes.
+     *
+     * @return the notes, possibly none
+     */
+    public List<String> notes() {
+        List<String> notes = new ArrayList<>();
+        if (!Double.isNaN(inferredSaturation)) {
+            notes.add("several pixels hold exactly the exposure's highest count, "
+                    + java.math.BigDecimal.valueOf(inferredSaturation).stripTrailingZeros().toPlainString()
+                    + ": the exposure looks clipped there, so that is taken as the saturation level (peaks reaching"
+                    + " it are centred from their wings; a saturation level given overrides it)");
+        }
+        for (boolean high : new boolean[] {false, true}) {
+            if (restsOnItsEndLine(high)) {
+                double check = endConfirmationPixels(high);
+                notes.add(String.format(Locale.ROOT, "the outermost line at pixel %.1f is checked by the other lines"
+                        + " %s; near it the solution rests on that one pairing (its stated uncertainty assumes the"
+                        + " pairing is right; a required precision refuses such solutions)", endConfirmationAtPixel(high),
+                        Double.isNaN(check) ? "not at all" : String.format(Locale.ROOT, "only to +-%.3g pixel", check)));
+            }
+        }
+        return notes;
     }
 
     private double endPixel(boolean high) {
