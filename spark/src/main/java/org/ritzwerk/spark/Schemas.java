@@ -293,8 +293,10 @@ public final class Schemas {
      * {@code lines} (the truth, array of {@link #TRUE_LINE}); {@code failure_code} and
      * {@code failure} when the job refused the scene (e.g. no line carries light in the grid);
      * {@code notes} (what the scene's physics left out or merged, as {@code synth} prints them as
-     * notes: Stark widths drawn only for some lines, Balmer lines merged by the density, ...; empty
-     * when there is nothing to say, null for a refused scene).
+     * notes: Stark widths drawn only for some lines, Balmer lines merged by the density, ...; and
+     * settings away from their defaults that do nothing for the scene, such as a level model for a
+     * scene without one-electron ions; empty when there is nothing to say, null for a refused
+     * scene).
      */
     public static final StructType SPECTRA = struct(
             required("id", DataTypes.StringType),

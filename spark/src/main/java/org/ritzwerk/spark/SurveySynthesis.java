@@ -177,6 +177,36 @@ public final class SurveySynthesis {
             return atoms;
         }
 
+        /**
+         * The settings that do nothing for this scene, as notes: the command refuses such an option,
+         * but one table may hold scenes with one-electron ions and scenes without, so a row says
+         * it instead. Only settings away from their defaults are named.
+         */
+        private List<String> withoutEffect(String id, String[] names) {
+            boolean ions = false;
+            for (String name : names) {
+                ions |= !atoms(id, name).ions().isEmpty();
+            }
+            List<String> notes = new java.util.ArrayList<>(4);
+            String noIon = " has no effect on this scene: it holds no one-electron ion";
+            if (!ions && !p.model().equals(SynthesisParameters.DEFAULT_MODEL)) {
+                notes.add("the level model " + p.model() + noIon + " (alkali atoms, level lists and line lists bring"
+                        + " their own levels)");
+            }
+            if (names.length == 0 && p.nMax() != SynthesisParameters.DEFAULT_N_MAX) {
+                notes.add("the highest n (" + p.nMax() + ") has no effect on this scene: it names no species (line"
+                        + " lists bring their own lines)");
+            }
+            if (!ions && p.shapes().naturalWidths()) {
+                notes.add("natural widths have no effect on this scene: they are computed for one-electron ions' lines,"
+                        + " and it holds none");
+            }
+            if (!ions && p.shapes().components()) {
+                notes.add("drawing fine-structure components" + noIon);
+            }
+            return notes;
+        }
+
         InternalRow synthesise(Fields f, InternalRow row) {
             String id = f.id(row);
             String[] names = f.strings(row, id, 1, !lineLists.isEmpty());
@@ -293,7 +323,8 @@ public final class SurveySynthesis {
             out.setOffsetAndSizeFromPreviousCursor(3, start);
             out.setNullAt(4);
             out.setNullAt(5);
-            List<String> notes = scene.notes();
+            List<String> notes = new java.util.ArrayList<>(scene.notes());
+            notes.addAll(withoutEffect(id, names));
             start = out.cursor();
             notesOut.initialize(notes.size());
             for (int k = 0; k < notes.size(); k++) {

@@ -57,6 +57,10 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
 
     private static final long serialVersionUID = 1L;
 
+    /** The level model of one-electron ions unless {@link #withModel} says otherwise, as {@code synth}'s. */
+    public static final String DEFAULT_MODEL = "qed";
+    /** The highest upper n unless {@link #withModel} says otherwise, as {@code synth}'s. */
+    public static final int DEFAULT_N_MAX = 30;
     /** The most pixels a grid may have, as {@code synth --pixels} allows. */
     public static final int MAX_PIXELS = 50_000_000;
     private static final double MAX_COUNTS = 1e15;
@@ -237,7 +241,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
      *         renderer auto, 10000 peak counts, Poisson noise with read noise 0
      */
     public static SynthesisParameters linear(double fromNm, double toNm, int pixels) {
-        return new SynthesisParameters(fromNm, toNm, pixels, false, List.of(), "vacuum", "qed", 30, "auto", 10_000, 0,
+        return new SynthesisParameters(fromNm, toNm, pixels, false, List.of(), "vacuum", DEFAULT_MODEL, DEFAULT_N_MAX,
+                "auto", 10_000, 0,
                 List.of(), List.of(), Shapes.none(), Background.none());
     }
 
@@ -248,7 +253,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
      * @return {@link #linear}'s defaults on a logarithmic grid, as {@code synth --grid log}
      */
     public static SynthesisParameters logarithmic(double fromNm, double toNm, int pixels) {
-        return new SynthesisParameters(fromNm, toNm, pixels, true, List.of(), "vacuum", "qed", 30, "auto", 10_000, 0,
+        return new SynthesisParameters(fromNm, toNm, pixels, true, List.of(), "vacuum", DEFAULT_MODEL, DEFAULT_N_MAX,
+                "auto", 10_000, 0,
                 List.of(), List.of(), Shapes.none(), Background.none());
     }
 
@@ -268,8 +274,8 @@ public record SynthesisParameters(double fromNm, double toNm, int pixels, boolea
         for (double v : coefficients) {
             c.add(v);
         }
-        return new SynthesisParameters(Double.NaN, Double.NaN, pixels, false, c, "vacuum", "qed", 30, "auto", 10_000,
-                0, List.of(), List.of(), Shapes.none(), Background.none());
+        return new SynthesisParameters(Double.NaN, Double.NaN, pixels, false, c, "vacuum", DEFAULT_MODEL, DEFAULT_N_MAX,
+                "auto", 10_000, 0, List.of(), List.of(), Shapes.none(), Background.none());
     }
 
     /**

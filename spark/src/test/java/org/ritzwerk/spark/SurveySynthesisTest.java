@@ -248,6 +248,40 @@ class SurveySynthesisTest {
     }
 
     /**
+     * Settings that do nothing for a scene are said in its notes, not dropped without a word: the
+     * command refuses them (synth --lines lamp-ne-i --model dirac: "has no effect without a
+     * one-electron ion"), but one table may mix lamp scenes with hydrogen scenes, so each lamp
+     * row names the level model, the highest n, natural widths and components it ignored, and the
+     * hydrogen row, which uses them, names none. The spectra are unchanged by the notes.
+     */
+    @Test
+    void settingsWithoutEffectOnAScenesAreNamedInItsNotes() {
+        SparkSession spark = LocalSpark.session();
+        List<Row> scenes = List.of(
+                RowFactory.create("lamp", new String[0], null, 400.0, null, 0.0, 4000.0, 1L),
+                RowFactory.create("hydrogen", new String[] {"H I"}, null, 9000.0, null, 0.0, 4000.0, 2L));
+        SynthesisParameters base = SynthesisParameters.linear(640, 670, 600).withMedium("air")
+                .withLineSets(List.of("lamp-ne-i"));
+        SynthesisParameters odd = base.withModel("dirac", 12).withShapes(0, true, true);
+        List<Row> plain = SurveySynthesis.of(base).synthesise(spark.createDataFrame(scenes, Schemas.SCENES))
+                .orderBy("id").collectAsList();
+        List<Row> out = SurveySynthesis.of(odd).synthesise(spark.createDataFrame(scenes, Schemas.SCENES))
+                .orderBy("id").collectAsList();
+        List<String> hydrogen = out.get(0).getList(6);
+        List<String> lamp = out.get(1).getList(6);
+        assertEquals(List.of("the level model dirac has no effect on this scene: it holds no one-electron ion"
+                + " (alkali atoms, level lists and line lists bring their own levels)",
+                "the highest n (12) has no effect on this scene: it names no species (line lists bring their own"
+                        + " lines)",
+                "natural widths have no effect on this scene: they are computed for one-electron ions' lines, and it"
+                        + " holds none",
+                "drawing fine-structure components has no effect on this scene: it holds no one-electron ion"), lamp);
+        assertTrue(hydrogen.stream().noneMatch(n -> n.contains("no effect")), hydrogen.toString());
+        assertTrue(plain.get(1).getList(6).isEmpty(), "defaults say nothing");
+        assertEquals(plain.get(1).getList(1), out.get(1).getList(1), "the lamp's counts are the same");
+    }
+
+    /**
      * The command's other scene settings on Spark: a logarithmic grid ({@code --grid log}), a
      * collisional width, natural widths and fine-structure components, and a continuum (blackbody
      * at each scene's temperature, then at a fixed one, then flat), against the library's scene
