@@ -365,16 +365,21 @@ final class IdentifyCommand implements Callable<Integer> {
     /**
      * One species' presence as the library computed it: matched lines beside the number chance
      * would give, strong lines found beside chance, the chance probability and the presence.
+     * After a shift search the counts are those of one shift and the probability is over the
+     * shifts tried, and the line says so.
      */
-    static String presenceLine(Identification.SpeciesPresence presence) {
-        String head = String.format(Locale.ROOT, "%s: %d lines matched (%.3g by chance)",
-                presence.species().notation(), presence.matched(), presence.matchedByChance());
+    static String presenceLine(Identification.SpeciesPresence presence, double shiftsTried) {
+        String where = shiftsTried > 1 ? " at one shift" : "";
+        String head = String.format(Locale.ROOT, "%s: %d lines matched (%.3g by chance%s)",
+                presence.species().notation(), presence.matched(), presence.matchedByChance(), where);
         if (presence.strongInRange() == 0) {
             return head + "; no strong line in range, presence not judged";
         }
         return head + String.format(Locale.ROOT, "; %d of %d strong lines in range found (%.3g by chance, "
-                + "chance probability %.2g); presence %.2f", presence.strongMatched(), presence.strongInRange(),
-                presence.strongByChance(), presence.chanceProbability(), presence.presence());
+                + "chance probability %.2g%s); presence %.2f", presence.strongMatched(), presence.strongInRange(),
+                presence.strongByChance(), presence.chanceProbability(), shiftsTried > 1
+                        ? String.format(Locale.ROOT, " over the %.0f shifts tried", shiftsTried) : "",
+                presence.presence());
     }
 
     private void write(PeakFiles.Peaks read, Identification result, LineCatalog lines, ShiftSearch.Fit fit,
@@ -442,7 +447,7 @@ final class IdentifyCommand implements Callable<Integer> {
             summary.println(text);
         }
         for (Identification.SpeciesPresence presence : result.speciesPresence()) {
-            summary.println(presenceLine(presence));
+            summary.println(presenceLine(presence, result.shiftsTried()));
         }
         summary.flush();
     }

@@ -199,7 +199,12 @@ class IdentifyCommandTest {
         assertTrue(run.err().contains(velocity), velocity + " in " + run.err());
         // The presence line is the library's record, printed.
         Identification.SpeciesPresence presence = report.identification().speciesPresence().get(0);
-        assertTrue(run.err().contains(IdentifyCommand.presenceLine(presence)), run.err());
+        assertTrue(run.err().contains(IdentifyCommand.presenceLine(presence,
+                report.identification().shiftsTried())), run.err());
+        // A velocity search: the chance counts are one shift's, the probability is over the shifts.
+        assertTrue(report.identification().shiftsTried() > 1, "shifts " + report.identification().shiftsTried());
+        assertTrue(run.err().contains("by chance at one shift") && run.err().contains(" shifts tried)"),
+                run.err());
         assertTrue(presence.presence() >= 0.9, presence.toString());
     }
 

@@ -307,6 +307,23 @@ public final class Identification {
     static final long EXACT_TAIL_WORK = 20_000_000L;
 
     /**
+     * How many independent shifts a velocity or offset search tried: the span it searched, at
+     * the peaks' middle, over the tolerance window there (at least 1); 1 without a search. The
+     * chance probabilities of {@link #speciesPresence} are taken over them; the expected chance
+     * counts ({@code matchedByChance}, {@code strongByChance}) are those of one shift.
+     *
+     * @return the shifts, at least 1
+     */
+    public double shiftsTried() {
+        double[] sorted = ascending(peaks.wavelengths());
+        double[] sigmas = ascending(peaks.sigmas());
+        double typicalSigma = sigmas[sigmas.length / 2];
+        double middle = sorted[sorted.length / 2];
+        double searched = searchRelativeSpan * middle + searchSpan;
+        return searched > 0 ? Math.max(1, searched / (2 * tolerance.halfWidth(middle, typicalSigma, 0))) : 1;
+    }
+
+    /**
      * Presence of each species of the catalog, weighed against the coincidences that chance
      * alone would give.
      *
@@ -368,11 +385,7 @@ public final class Identification {
         double typicalSigma = sigmas[sigmas.length / 2];
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
-        // Independent shifts a search tried: its span over the tolerance window at the middle.
-        double middle = sorted[sorted.length / 2];
-        double searched = searchRelativeSpan * middle + searchSpan;
-        double trials = searched > 0
-                ? Math.max(1, searched / (2 * tolerance.halfWidth(middle, typicalSigma, 0))) : 1;
+        double trials = shiftsTried();
         for (int j = 0; j < lines.size(); j++) {
             int s = lines.speciesIndex(j);
             matched[s] += used[j] ? 1 : 0;

@@ -116,7 +116,10 @@ class IdentificationRulesTest {
         for (long seed = 1; seed <= 50; seed++) {
             Identification single = Identifier.of(Tolerance.kSigma(5)).identify(randomPeaks(60, 1e-11, seed), lines);
             List<Identification.SpeciesPresence> before = single.speciesPresence();
-            List<Identification.SpeciesPresence> after = single.searchedOver(0, 10e-9).speciesPresence();
+            Identification searched = single.searchedOver(0, 10e-9);
+            assertEquals(1, single.shiftsTried());
+            assertEquals(100, searched.shiftsTried(), 1e-6);
+            List<Identification.SpeciesPresence> after = searched.speciesPresence();
             for (int k = 0; k < before.size(); k++) {
                 double p = before.get(k).chanceProbability();
                 if (Double.isNaN(p)) {
