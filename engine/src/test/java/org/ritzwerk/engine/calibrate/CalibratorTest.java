@@ -169,6 +169,12 @@ class CalibratorTest {
         return LampSet.of(List.of(list.build()), Medium.air());
     }
 
+    /** The mercury lamp of the 400 + 0.15 p nm window: four lines on the chip, two off it. */
+    private static LampSet window400Lamp() {
+        return mercury(new double[] {253.6517, 404.6563, 433.9223, 435.8328, 546.0735, 576.9598},
+                new double[] {1000, 400, 60, 1000, 500, 50});
+    }
+
     /** Counts of an invented 1024-pixel spectrometer seeing 400 + 0.15 p nm, lines 1.9 pixels wide. */
     private static double[] window400(double[] nm, double[] flux, double readNoise, long seed) {
         PixelGrid grid = PixelGrid.linear(400 - 0.075, 400 + 0.15 * 1023.5, 1024);
@@ -194,8 +200,7 @@ class CalibratorTest {
      */
     @Test
     void aWindowOfFourLinesCalibratesWithATightPrior() {
-        LampSet lamp = mercury(new double[] {253.6517, 404.6563, 433.9223, 435.8328, 546.0735, 576.9598},
-                new double[] {1000, 400, 60, 1000, 500, 50});
+        LampSet lamp = window400Lamp();
         double[] nm = {404.6563, 433.9223, 435.8328, 546.0735};
         double[] flux = {8.9e3, 1.3e3, 2.2e4, 1.1e4};
         LampMatcher.Prior prior = new LampMatcher.Prior(399, 555, 0.149, 0.151);
@@ -233,8 +238,7 @@ class CalibratorTest {
      */
     @Test
     void aForeignLineBesideAMissingFarLineIsRefused() {
-        LampSet lamp = mercury(new double[] {253.6517, 404.6563, 433.9223, 435.8328, 546.0735, 576.9598},
-                new double[] {1000, 400, 60, 1000, 500, 50});
+        LampSet lamp = window400Lamp();
         double[] nm = {404.6563, 433.9223, 435.8328, 546.42};
         double[] flux = {8.9e3, 1.3e3, 2.2e4, 1.1e4};
         for (long seed = 1; seed <= 4; seed++) {
