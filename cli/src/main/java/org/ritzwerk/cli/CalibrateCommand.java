@@ -12,6 +12,7 @@ import org.ritzwerk.data.CalibrationRecord;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.data.StrengthClass;
 import org.ritzwerk.engine.calibrate.Calibration;
+import org.ritzwerk.engine.calibrate.CalibrationException;
 import org.ritzwerk.engine.calibrate.CalibrationProblem;
 import org.ritzwerk.engine.calibrate.Calibrator;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
@@ -138,6 +139,13 @@ final class CalibrateCommand implements Callable<Integer> {
                     + "every wavelength within 0.1 pixel. Default: none (the report states the largest uncertainty).")
     Double requiredPrecision;
 
+    @Option(names = "--unchecked-ends",
+            description = "Accept a solution whose outermost line no other line checks (three lines for a straight"
+                    + " line, four for a quadratic: a window of three lamp lines); a foreign line beside a missing"
+                    + " lamp line there would go unseen, so by default such a solution is refused (exit 2). For a"
+                    + " lamp whose lines there are known to be clean.")
+    boolean uncheckedEnds;
+
     @Option(names = "--clip", paramLabel = "K", defaultValue = "3.5",
             description = "Reject pairs beyond K robust standard deviations, one at a time. Default: ${DEFAULT-VALUE}.")
     double clip;
@@ -170,7 +178,15 @@ final class CalibrateCommand implements Callable<Integer> {
         }
         CalibrationProblem problem = CalibrationProblem.builder(spectrum.counts()).sigmas(spectrum.sigmas())
                 .lamp(lampSet(AxisMedium.of(medium))).prior(prior()).source(spectrum.source()).build();
-        Calibration calibration = calibrator().calibrate(problem);
+        Calibration calibration;
+        try {
+            calibration = calibrator().calibrate(problem);
+        } catch (CalibrationException e) {
+            if (CalibrationException.UNCHECKED_END.equals(e.code())) {
+                throw new CalibrationException(e.code(), e.getMessage() + " (--unchecked-ends)", e);
+            }
+            throw e;
+        }
         for (String note : calibration.notes()) {
             spec.commandLine().getErr().println("note: " + note);
         }
@@ -213,7 +229,8 @@ final class CalibrateCommand implements Callable<Integer> {
         if (apply != null) {
             for (String option : new String[] {"--lamp", "--lines", "--medium", "--from", "--to", "--dispersion-range",
                 "--degree", "--max-degree", "--threshold", "--saturation", "--tolerance", "--min-matched", "--min-strength",
-                "--no-second-order", "--required-precision", "--clip", "--plot", "--format", "--data"}) {
+                "--no-second-order", "--required-precision", "--unchecked-ends", "--clip", "--plot", "--format",
+                "--data"}) {
                 rules.refuseUnless(option, false, "with --apply (the saved solution is applied as it is; "
                         + "--out is the only option --apply takes)");
             }
@@ -260,7 +277,8 @@ final class CalibrateCommand implements Callable<Integer> {
 
     private Calibrator calibrator() {
         Calibrator calibrator = Calibrator.defaults().withThreshold(threshold).withTolerance(tolerance)
-                .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(!noSecondOrder);
+                .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(!noSecondOrder)
+                .withUncheckedEndsAccepted(uncheckedEnds);
         calibrator = degree.equals("auto") ? calibrator.withAutomaticDegree(maxDegree)
                 : calibrator.withDegree(parseDegree());
         calibrator = requiredPrecision == null ? calibrator : calibrator.withRequiredPrecision(requiredPrecision);

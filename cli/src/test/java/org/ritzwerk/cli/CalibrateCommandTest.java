@@ -111,7 +111,8 @@ class CalibrateCommandTest {
      * exposure (no read noise) and from one with read noise. The report states how the centroid
      * uncertainties were scaled in words: with three peaks it had printed "pixel variance NaN".
      * Before, the first was refused ("matches 0 of the 3 strongest peaks") and the second after
-     * refinement ("a calibration needs at least 4").
+     * refinement ("a calibration needs at least 4"). No other line checks an end of three, so the
+     * solution is given only with --unchecked-ends, and refused without it, saying so.
      */
     @Test
     void aWindowWithThreeLampLinesCalibratesWithAPrior(@TempDir Path dir) throws IOException {
@@ -122,9 +123,16 @@ class CalibrateCommandTest {
                     readNoise, "--seed", "2", "--out", spectrum.toString());
             assertEquals(0, synth.code(), synth.err());
             Path out = dir.resolve("solution-" + readNoise + ".json");
-            CliTest.Run run = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Hg I", "--from", "394 nm",
+            CliTest.Run refused = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Hg I", "--from", "394 nm",
                     "--to", "447 nm", "--dispersion-range", "0.049,0.051", "--out", out.toString());
+            assertEquals(2, refused.code(), refused.err());
+            assertTrue(refused.err().contains("is checked by no other line (3 pairs for a degree-1 solution")
+                    && refused.err().contains("accept unchecked ends (--unchecked-ends)"), refused.err());
+            assertFalse(Files.exists(out), "nothing written for a refused solution");
+            CliTest.Run run = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Hg I", "--from", "394 nm",
+                    "--to", "447 nm", "--dispersion-range", "0.049,0.051", "--unchecked-ends", "--out", out.toString());
             assertEquals(0, run.code(), run.err());
+            assertTrue(run.err().contains("checked by the other lines not at all"), run.err());
             assertTrue(run.out().contains("Solution: degree 1 in air wavelengths, 3 lines used"), run.out());
             assertFalse(run.out().contains("NaN"), run.out());
             assertTrue(run.out().contains(readNoise.equals("0") ? "(pixel variance 1.00 times the Poisson model's)"

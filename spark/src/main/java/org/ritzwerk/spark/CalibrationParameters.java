@@ -45,6 +45,10 @@ import org.ritzwerk.medium.Medium;
  * @param resolvingPower    the spectrometer's resolving power, 1 to 1e7 ({@code --resolving-power}):
  *                          lamp lines of one gas closer than half the FWHM are merged; NaN for the
  *                          command's default (only gases built from levels merged, at 5000)
+ * @param uncheckedEnds     whether a solution may rest on an end pairing no other pair checks
+ *                          ({@code --unchecked-ends}; {@code Calibrator.withUncheckedEndsAccepted}):
+ *                          a window of three lamp lines needs it; by default such a row is refused
+ *                          (failure code {@code calibrate.unchecked-end})
  *
  * <p>Serialisable only to travel from the driver to the executors of the same version, so the
  * serialised form is not part of the API.
@@ -54,8 +58,8 @@ import org.ritzwerk.medium.Medium;
 public record CalibrationParameters(List<String> lamps, List<String> lineSets, List<String> dataFiles, String medium,
         String minStrength, double threshold, double tolerancePixels, double minMatched, double clip, int degree,
         int maxDegree, double saturation, double priorFromNm, double priorToNm, double minDispersion,
-        double maxDispersion, boolean secondOrder, double requiredPrecision, double resolvingPower)
-        implements Serializable {
+        double maxDispersion, boolean secondOrder, double requiredPrecision, double resolvingPower,
+        boolean uncheckedEnds) implements Serializable {
 
     private static final long serialVersionUID = 1L;
 
@@ -81,6 +85,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @param secondOrder     as above
      * @param requiredPrecision as above
      * @param resolvingPower  as above
+     * @param uncheckedEnds   as above
      */
     public CalibrationParameters {
         lamps = List.copyOf(lamps);
@@ -120,7 +125,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
                 Calibrator.DEFAULT_TOLERANCE, Calibrator.DEFAULT_MIN_MATCHED, DispersionFit.DEFAULT_CLIP, 0,
                 Calibrator.DEFAULT_MAX_DEGREE, Double.NaN, Double.NaN, Double.NaN,
                 LampMatcher.Prior.none().minDispersion(), LampMatcher.Prior.none().maxDispersion(), true, Double.NaN,
-                Double.NaN);
+                Double.NaN, false);
     }
 
     /**
@@ -130,7 +135,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withMedium(String mediumSpec) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, mediumSpec, minStrength, threshold,
                 tolerancePixels, minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm,
-                minDispersion, maxDispersion, secondOrder, requiredPrecision, resolvingPower);
+                minDispersion, maxDispersion, secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
     }
 
     /**
@@ -140,7 +145,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withDataFiles(List<String> files) {
         return new CalibrationParameters(lamps, lineSets, files, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
     }
 
     /**
@@ -151,7 +156,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withDegree(int fixed, int highest) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, fixed, highest, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
     }
 
     /**
@@ -161,7 +166,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withSaturation(double counts) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, counts, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
     }
 
     /**
@@ -174,7 +179,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withPrior(double fromNm, double toNm, double minNmPerPixel, double maxNmPerPixel) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, fromNm, toNm, minNmPerPixel, maxNmPerPixel,
-                secondOrder, requiredPrecision, resolvingPower);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
     }
 
     /**
@@ -184,7 +189,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withSecondOrder(boolean considered) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                considered, requiredPrecision, resolvingPower);
+                considered, requiredPrecision, resolvingPower, uncheckedEnds);
     }
 
     /**
@@ -196,7 +201,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withRequiredPrecision(double pixels) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, pixels, resolvingPower);
+                secondOrder, pixels, resolvingPower, uncheckedEnds);
     }
 
     /**
@@ -206,13 +211,24 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withResolvingPower(double r) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, r);
+                secondOrder, requiredPrecision, r, uncheckedEnds);
+    }
+
+    /**
+     * @param accepted whether a solution may rest on an end pairing no other pair checks (a window
+     *                 of three lamp lines); see {@code Calibrator.withUncheckedEndsAccepted}
+     * @return a copy
+     */
+    public CalibrationParameters withUncheckedEnds(boolean accepted) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                secondOrder, requiredPrecision, resolvingPower, accepted);
     }
 
     /** @return the calibrator these settings describe (as the command configures it) */
     Calibrator calibrator() {
         return calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
-                requiredPrecision);
+                requiredPrecision).withUncheckedEndsAccepted(uncheckedEnds);
     }
 
     private static Calibrator calibrator(double threshold, double tolerancePixels, double minMatched, double clip,

@@ -177,6 +177,47 @@ class SurveyCalibrationTest {
     }
 
     /**
+     * A window holding three of mercury's lines (404.66, 433.92, 435.83 nm on an invented
+     * 1024-pixel spectrometer, 395 + 0.05 p nm, with a prior): no other line checks an end of
+     * three, so by default the row is refused with the library's code and message, and with
+     * {@code withUncheckedEnds(true)} it is the library's solution bit for bit, its notes saying
+     * that the ends rest on their pairings.
+     */
+    @Test
+    void aThreeLineWindowNeedsUncheckedEndsAsInTheLibrary() {
+        SparkSession spark = LocalSpark.session();
+        DataContext data = DataContext.builtIn();
+        org.ritzwerk.engine.synth.PixelGrid grid = org.ritzwerk.engine.synth.PixelGrid.linear(395 - 0.025,
+                395 + 0.05 * 1023.5, 1024);
+        double[] nm = {404.6563, 433.9223, 435.8328};
+        double[] fwhm = {0.11, 0.11, 0.11};
+        double[] expected = new double[1024];
+        new org.ritzwerk.engine.synth.LineRenderer(grid, org.ritzwerk.engine.synth.Instrument.ideal(), 12)
+                .render(nm, new double[] {1.03e4, 1.6e3, 2.6e4}, fwhm, new double[3], expected);
+        double[] counts = new double[1024];
+        org.ritzwerk.engine.synth.Noise.apply(expected, 3, 5, counts);
+        Dataset<Row> table = spark.createDataFrame(List.of(RowFactory.create("hg-1", counts, null)),
+                Schemas.EXPOSURES);
+        CalibrationParameters window = CalibrationParameters.of(List.of("Hg I"), List.of())
+                .withPrior(394, 447, 0.049, 0.051);
+        LampSet mercury = LampSet.of(List.of(data.lampLines(Species.parse("Hg I"))), Medium.air());
+        CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(mercury)
+                .prior(new org.ritzwerk.engine.calibrate.LampMatcher.Prior(394, 447, 0.049, 0.051)).source("hg-1")
+                .build();
+        Row refusedRow = SurveyCalibration.of(window).calibrate(table).collectAsList().get(0);
+        CalibrationException refused = org.junit.jupiter.api.Assertions.assertThrows(CalibrationException.class,
+                () -> Calibrator.defaults().calibrate(problem));
+        assertEquals(CalibrationException.UNCHECKED_END, refusedRow.getAs("failure_code"));
+        assertEquals(refused.getMessage(), refusedRow.getAs("failure"));
+        Row row = SurveyCalibration.of(window.withUncheckedEnds(true)).calibrate(table).collectAsList().get(0);
+        Calibration c = Calibrator.defaults().withUncheckedEndsAccepted(true).calibrate(problem);
+        assertNull(row.getAs("failure"));
+        assertArrayEquals(c.solution().polynomial().coefficients(), doubles(row.getList(6)));
+        assertEquals(c.notes(), row.getList(row.fieldIndex("notes")));
+        assertTrue(c.notes().size() == 2, c.notes().toString());
+    }
+
+    /**
      * A helium lamp, which has no lamp set: its lamp is built from the He I level list as the
      * calibrate command builds it ({@code DataLines.calibrationLamp}: Ritz lines ranked by g_u A,
      * blended at the resolving power, 5000 by default), and each solution is the library's bit for

@@ -35,6 +35,12 @@ public final class CalibrationException extends RitzwerkException {
      */
     public static final String IMPRECISE = "calibrate.imprecise";
     /**
+     * Code: an outermost fitted line is checked by no other pair (too few remain for the degree
+     * without it), and solutions resting on such a pairing were not accepted
+     * ({@link Calibrator#withUncheckedEndsAccepted}).
+     */
+    public static final String UNCHECKED_END = "calibrate.unchecked-end";
+    /**
      * Code: the counts cannot be searched for peaks: too few pixels, every pixel the same or
      * saturated, or negative counts where none are allowed.
      */

@@ -49,10 +49,11 @@ public final class Calibrator {
     private final double maxChi2;
     private final boolean secondOrder;
     private final double requiredPrecision;
+    private final boolean uncheckedEnds;
 
     private Calibrator(double threshold, double saturation, boolean negativeCountsAllowed, double tolerance,
             double minMatched, double clip, int degree, int maxDegree, double maxChi2, boolean secondOrder,
-            double requiredPrecision) {
+            double requiredPrecision, boolean uncheckedEnds) {
         this.threshold = threshold;
         this.saturation = saturation;
         this.negativeCountsAllowed = negativeCountsAllowed;
@@ -64,6 +65,7 @@ public final class Calibrator {
         this.maxChi2 = maxChi2;
         this.secondOrder = secondOrder;
         this.requiredPrecision = requiredPrecision;
+        this.uncheckedEnds = uncheckedEnds;
     }
 
     /**
@@ -76,7 +78,7 @@ public final class Calibrator {
     public static Calibrator defaults() {
         return new Calibrator(PeakFinder.DEFAULT_THRESHOLD, Double.NaN, true, DEFAULT_TOLERANCE, DEFAULT_MIN_MATCHED,
                 DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE, DEFAULT_MAX_REDUCED_CHI_SQUARE, true,
-                Double.POSITIVE_INFINITY);
+                Double.POSITIVE_INFINITY, false);
     }
 
     /**
@@ -86,7 +88,7 @@ public final class Calibrator {
     public Calibrator withThreshold(double snr) {
         PeakFinder.defaults().withThreshold(snr); // validates
         return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -97,7 +99,7 @@ public final class Calibrator {
     public Calibrator withSaturationLevel(double counts) {
         PeakFinder.defaults().withSaturationLevel(counts); // validates
         return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -106,7 +108,7 @@ public final class Calibrator {
      */
     public Calibrator withNegativeCountsAllowed(boolean allowed) {
         return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -116,7 +118,7 @@ public final class Calibrator {
     public Calibrator withTolerance(double pixels) {
         LampMatcher.defaults().withTolerance(pixels); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -127,7 +129,7 @@ public final class Calibrator {
     public Calibrator withMinMatchedFraction(double fraction) {
         LampMatcher.defaults().withMinInlierFraction(fraction); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -137,7 +139,7 @@ public final class Calibrator {
     public Calibrator withClipping(double k) {
         DispersionFit.automatic(1).withClipping(k, DispersionFit.DEFAULT_CLIP_ITERATIONS); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -147,7 +149,7 @@ public final class Calibrator {
     public Calibrator withDegree(int fixedDegree) {
         DispersionFit.ofDegree(fixedDegree); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, fixedDegree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -157,7 +159,7 @@ public final class Calibrator {
     public Calibrator withAutomaticDegree(int highest) {
         DispersionFit.automatic(highest); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest,
-                maxChi2, secondOrder, requiredPrecision);
+                maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -172,7 +174,7 @@ public final class Calibrator {
                     + limit);
         }
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, limit, secondOrder, requiredPrecision);
+                maxDegree, limit, secondOrder, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -183,7 +185,7 @@ public final class Calibrator {
      */
     public Calibrator withSecondOrder(boolean considered) {
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, considered, requiredPrecision);
+                maxDegree, maxChi2, considered, requiredPrecision, uncheckedEnds);
     }
 
     /**
@@ -203,12 +205,36 @@ public final class Calibrator {
                     + pixels);
         }
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, pixels);
+                maxDegree, maxChi2, secondOrder, pixels, uncheckedEnds);
     }
 
     /** @return the largest accepted stated standard uncertainty in pixels; infinite when none is required */
     public double requiredPrecision() {
         return requiredPrecision;
+    }
+
+    /**
+     * Whether a solution may rest on an end pairing that no other pair checks: when too few pairs
+     * remain for the degree without the outermost one ({@link Calibration#endConfirmationPixels}
+     * is NaN: three pairs for a straight line, four for a quadratic, five for a cubic), a foreign
+     * line within the tolerance of a missing lamp line there would be taken for it and show in no
+     * residual. A mercury window of three lines with 404.66 nm replaced by an invented line 1.3
+     * to 2.9 pixels away was accepted that far off while stating 0.04 pixel, in half the
+     * exposures. By default such a solution is refused, naming the line; a user who knows the
+     * lamp's lines there are clean (a three-line lamp has no others) accepts it with this, and the
+     * calibration's notes still say that the end rests on its pairing.
+     *
+     * @param accepted whether to accept such solutions
+     * @return a solver with that choice
+     */
+    public Calibrator withUncheckedEndsAccepted(boolean accepted) {
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder, requiredPrecision, accepted);
+    }
+
+    /** @return whether solutions resting on an unchecked end pairing are accepted */
+    public boolean uncheckedEndsAccepted() {
+        return uncheckedEnds;
     }
 
     /** @return whether peaks may be explained as second-order images of the lamp's lines */
@@ -338,6 +364,7 @@ public final class Calibrator {
         }
         Calibration calibration = new Calibration(problem, this, peaks, first, fitted, refined.subset(saturatedOnly),
                 solution, inferredSaturation);
+        checkEndsChecked(calibration);
         checkPrecision(calibration);
         return calibration;
     }
@@ -368,6 +395,26 @@ public final class Calibrator {
             at += c == max ? 1 : 0;
         }
         return at >= CLIPPED_PIXELS ? max : Double.NaN;
+    }
+
+    /** Refuses a solution with an end no other pair checks, unless such solutions are accepted. */
+    private void checkEndsChecked(Calibration calibration) {
+        if (uncheckedEnds) {
+            return;
+        }
+        for (boolean high : new boolean[] {false, true}) {
+            if (Double.isNaN(calibration.endConfirmationPixels(high))) {
+                DispersionSolution solution = calibration.solution();
+                throw new CalibrationException(CalibrationException.UNCHECKED_END, String.format(Locale.ROOT,
+                        "%s: the outermost fitted line at pixel %.1f is checked by no other line (%d pairs for a"
+                                + " degree-%d solution: without it too few remain for the degree), so a foreign line"
+                                + " within the tolerance of a missing lamp line there would be taken for it and show"
+                                + " in no residual. More lamp lines in the window would check it; if the lamp's lines"
+                                + " there are known to be clean (a lamp of only these lines), accept unchecked ends",
+                        calibration.problem().source(), calibration.endConfirmationAtPixel(high),
+                        solution.usedCount(), solution.degree()));
+            }
+        }
     }
 
     /** Refuses a solution less precise than required, saying where and what would help. */
@@ -580,6 +627,7 @@ public final class Calibrator {
         return "Calibrator[threshold=" + threshold + ", saturation=" + saturation + ", tolerance=" + tolerance
                 + " px, minMatched=" + minMatched + ", clip=" + clip + ", degree="
                 + (degree > 0 ? Integer.toString(degree) : "auto<=" + maxDegree) + ", maxReducedChiSquare=" + maxChi2
-                + ", secondOrder=" + secondOrder + ", requiredPrecision=" + requiredPrecision + " px]";
+                + ", secondOrder=" + secondOrder + ", requiredPrecision=" + requiredPrecision + " px, uncheckedEnds="
+                + uncheckedEnds + "]";
     }
 }
