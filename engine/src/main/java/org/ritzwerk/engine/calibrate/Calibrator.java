@@ -447,12 +447,14 @@ public final class Calibrator {
                 throw new CalibrationException(CalibrationException.IMPRECISE, String.format(Locale.ROOT,
                         "%s: the outermost fitted line at pixel %.1f is checked by the other lines %s, so a wrong"
                                 + " pairing there (a foreign line beside a missing lamp line) would not show; the"
-                                + " solution cannot promise %.4g pixels near it. A lamp line closer to it, a prior or"
-                                + " a lower degree would check it", calibration.problem().source(), at,
+                                + " solution cannot promise %.4g pixels near it. %s", calibration.problem().source(), at,
                         Double.isNaN(check) ? "not at all (too few lines remain for the degree)"
                                 : String.format(Locale.ROOT, "only to +-%.3g pixels (needed: %.3g, %.0f times the"
                                         + " requirement)", check, CONFIRMATION_FACTOR * requiredPrecision,
-                                        CONFIRMATION_FACTOR), requiredPrecision));
+                                        CONFIRMATION_FACTOR), requiredPrecision,
+                        calibration.solution().degree() > 1 ? "A lamp line closer to it, or a lower degree, would"
+                                + " check it" : "A lamp line closer to it would check it (only the other lines"
+                                + " check an end)"));
             }
         }
     }
@@ -558,10 +560,11 @@ public final class Calibrator {
                 ? String.format(Locale.ROOT, "a pairing is wrong, or the dispersion is more curved than the fixed"
                         + " degree %d can follow. More lamp lines in the window, or a degree chosen automatically,"
                         + " would settle it", d)
-                : capped ? String.format(Locale.ROOT, "too few pairs remain to try degree %d (it needs %d): the"
+                : capped ? String.format(Locale.ROOT, "the automatic choice weighs degree %d only from %d pairs (a"
+                        + " fixed degree %d needs %d): the"
                         + " dispersion is more curved than the pairs can show, or a pairing is wrong. More lamp lines"
                         + " in the window, or a degree fixed one higher (if the pairing is known to be right), would"
-                        + " settle it", d + 1, d + 4)
+                        + " settle it", d + 1, d + 4, d + 1, d + 3)
                 : "a pairing is wrong, or the dispersion is more curved than the pairs can show. More lamp lines in"
                         + " the window, or a degree fixed one higher (if the pairing is known to be right), would"
                         + " settle it";

@@ -468,11 +468,11 @@ public final class LampMatcher {
                     + "a calibration needs at least " + needed);
         }
         throw new CalibrationException(CalibrationException.LAMP_MISMATCH, String.format(Locale.ROOT,
-                "the lamp lines (%s) do not explain the spectrum: the best pairing matches %d of the %d strongest "
+                "the lamp lines (%s) do not explain the spectrum (%s): the best pairing matches %d of the %d strongest "
                         + "peaks (%.0f%%; %.0f%% required), %d of them within %.2f pixels of their lines where chance "
                         + "alone would put %.1f (probability %.2g for one pairing, so %.2g expected by chance"
                         + " among the %d distinct solutions tried; at most %.2g accepted), %s",
-                span(lines), shown.strongMatched, shownSearch.strong.length,
+                span(lines), failed(shown, shownRefined, shownSearch), shown.strongMatched, shownSearch.strong.length,
                 100.0 * shown.strongMatched / shownSearch.strong.length, 100 * minInlierFraction, shown.preciseMatched,
                 shown.preciseTolerance, shown.chance, chanceProbability(shown),
                 chanceProbability(shown) * Math.max(1, shownSearch.evaluated), shownSearch.evaluated,
@@ -480,6 +480,22 @@ public final class LampMatcher {
                 + String.format(Locale.ROOT, "; the pairs scatter about its polynomial with a robust reduced "
                         + "chi-square of %.3g (at most %.3g accepted)", shownRefined.robustChiSquare(),
                         MAX_ROBUST_CHI_SQUARE) + onlyTheShare(shown, shownRefined, shownSearch));
+    }
+
+    /** Which of the acceptance tests the shown pairing fails, for the head of the refusal. */
+    private String failed(Candidate shown, Refined refined, Search search) {
+        List<String> failed = new ArrayList<>(3);
+        if (shown.strongMatched < minInlierFraction * search.strong.length) {
+            failed.add("too small a share of the strongest peaks paired");
+        }
+        if (chanceProbability(shown) * Math.max(1, search.evaluated) > MAX_FALSE_ALARM) {
+            failed.add("chance could do as well");
+        }
+        if (!(refined.robustChiSquare() <= MAX_ROBUST_CHI_SQUARE)) {
+            failed.add("the pairs scatter too much");
+        }
+        return failed.isEmpty() ? "too few pairs left after the leave-one-out check"
+                : "failed: " + String.join("; ", failed);
     }
 
     /**

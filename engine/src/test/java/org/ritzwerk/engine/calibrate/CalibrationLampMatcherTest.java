@@ -224,6 +224,10 @@ class CalibrationLampMatcherTest {
         CalibrationException argon = assertThrows(CalibrationException.class, () -> anything.match(scene.centre,
                 scene.sigma, scene.intensity, LampScene.PIXELS, ARGON));
         assertEquals(CalibrationException.LAMP_MISMATCH, argon.code(), argon.getMessage());
+        // The refusal leads with the test that failed (it had read as a pass: "matches 4 of the 4
+        // strongest peaks (100%)" where chance was the reason).
+        assertTrue(argon.getMessage().contains("do not explain the spectrum (failed: chance could do as well"),
+                argon.getMessage());
     }
 
     /**

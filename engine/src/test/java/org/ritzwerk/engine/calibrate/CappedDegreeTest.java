@@ -48,7 +48,8 @@ class CappedDegreeTest {
         assertEquals(CalibrationException.IMPLAUSIBLE_FIT, e.code());
         assertTrue(e.getMessage().startsWith("four.csv: the 4 fitted pairs disagree with the degree-1 polynomial"),
                 e.getMessage());
-        assertTrue(e.getMessage().contains("too few pairs remain to try degree 2 (it needs 5)"), e.getMessage());
+        assertTrue(e.getMessage().contains("the automatic choice weighs degree 2 only from 5 pairs (a fixed degree 2"
+                + " needs 4)"), e.getMessage());
     }
 
     /**
