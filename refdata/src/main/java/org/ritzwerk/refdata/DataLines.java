@@ -214,9 +214,9 @@ public final class DataLines {
                         + " line of the same species (within 1e-4 nm) and are used once");
             }
             if (fromLists != null && fromLists.outsideMedium() > 0) {
-                notes.add(fromLists.outsideMedium() + " lines of " + fromLists.setIds() + " lie outside the range of the "
-                        + medium.label() + " model (far ultraviolet or infrared) and are left out; " + fromLists.size()
-                        + " lines are used");
+                notes.add(fromLists.outsideMedium() + " lines of " + fromLists.setIds() + " lie outside the range of"
+                        + " the " + medium.label() + " model (far ultraviolet or infrared) and are left out; "
+                        + fromLists.size() + " lines are used");
             }
             return notes;
         }

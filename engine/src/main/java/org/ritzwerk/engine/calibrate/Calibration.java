@@ -109,10 +109,12 @@ public final class Calibration {
         for (boolean high : new boolean[] {false, true}) {
             if (restsOnItsEndLine(high)) {
                 double check = endConfirmationPixels(high);
+                String how = Double.isNaN(check) ? "not at all"
+                        : String.format(Locale.ROOT, "only to +-%.3g pixel", check);
                 notes.add(String.format(Locale.ROOT, "the outermost line at pixel %.1f is checked by the other lines"
                         + " %s; near it the solution rests on that one pairing (its stated uncertainty assumes the"
-                        + " pairing is right; a required precision refuses such solutions)", endConfirmationAtPixel(high),
-                        Double.isNaN(check) ? "not at all" : String.format(Locale.ROOT, "only to +-%.3g pixel", check)));
+                        + " pairing is right; a required precision refuses such solutions)",
+                        endConfirmationAtPixel(high), how));
             }
         }
         return notes;

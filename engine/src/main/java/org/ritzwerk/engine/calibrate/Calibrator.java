@@ -447,7 +447,8 @@ public final class Calibrator {
                 throw new CalibrationException(CalibrationException.IMPRECISE, String.format(Locale.ROOT,
                         "%s: the outermost fitted line at pixel %.1f is checked by the other lines %s, so a wrong"
                                 + " pairing there (a foreign line beside a missing lamp line) would not show; the"
-                                + " solution cannot promise %.4g pixels near it. %s", calibration.problem().source(), at,
+                                + " solution cannot promise %.4g pixels near it. %s",
+                        calibration.problem().source(), at,
                         Double.isNaN(check) ? "not at all (too few lines remain for the degree)"
                                 : String.format(Locale.ROOT, "only to +-%.3g pixels (needed: %.3g, %.0f times the"
                                         + " requirement)", check, CONFIRMATION_FACTOR * requiredPrecision,

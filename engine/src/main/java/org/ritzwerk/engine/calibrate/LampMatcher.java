@@ -1403,7 +1403,8 @@ public final class LampMatcher {
          * False without a pair to start from or when the bounds allow either direction.
          */
         private boolean pinnedByPrior(int k, int[] matched) {
-            double slack = 0.05 * Math.max(Math.abs(searchPrior.minDispersion()), Math.abs(searchPrior.maxDispersion()));
+            double slack = 0.05
+                    * Math.max(Math.abs(searchPrior.minDispersion()), Math.abs(searchPrior.maxDispersion()));
             double low = searchPrior.minDispersion() - slack;
             double high = searchPrior.maxDispersion() + slack;
             if (low * high <= 0) {
@@ -1439,8 +1440,8 @@ public final class LampMatcher {
          * and middle), in units of the tolerance at its mid-detector dispersion, rounded: two
          * pairings whose solutions agree within about a tolerance everywhere are one trial of the
          * chance test, not two (seeds of one solution grow into many pairings). Rounding may
-         * split one solution into two trials, never merge two distinct ones that differ by more
-         * than two tolerances somewhere.
+         * split one solution into two trials, and never merges two whose places differ by a
+         * tolerance or more at one of the five pixels.
          */
         private List<Long> signature(double[] a) {
             double unit = tolerance * Math.abs(PolynomialLeastSquares.derivative(a, 0) / half);

@@ -200,7 +200,8 @@ public final class Peaks {
     /**
      * @return the pooled reduced chi-square F by which the modelled pixel variances were scaled
      *         (near 1 when the Poisson-like model with gain 1 fits); 1 when the caller gave pixel
-     *         uncertainties or the exposure counted photons (whole counts, no background noise); NaN when there were too few fits to pool and each was scaled by its own
+     *         uncertainties or the exposure counted photons (whole counts, no background noise);
+     *         NaN when there were too few fits to pool and each was scaled by its own
      */
     public double noiseScale() {
         return noiseScale;

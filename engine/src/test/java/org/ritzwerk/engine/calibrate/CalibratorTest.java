@@ -269,7 +269,8 @@ class CalibratorTest {
                 assertEquals(1, c.solution().degree(), "seed " + seed);
                 assertEquals(4, c.solution().usedCount(), "seed " + seed);
                 for (int p = 0; p < 1024; p += 31) {
-                    assertEquals(400 + 0.15 * p, c.solution().wavelengthAt(p), 0.05 * 0.15, "seed " + seed + " at " + p);
+                    assertEquals(400 + 0.15 * p, c.solution().wavelengthAt(p), 0.05 * 0.15,
+                            "seed " + seed + " at " + p);
                 }
                 try {
                     Calibration free = calibrator.calibrate(CalibrationProblem.builder(counts).lamp(lamp).build());
