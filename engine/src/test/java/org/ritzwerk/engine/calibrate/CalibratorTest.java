@@ -166,9 +166,15 @@ class CalibratorTest {
 
     /** Counts of an invented 1024-pixel spectrometer seeing 395 + 0.05 p nm, lines 2.2 pixels wide. */
     private static double[] window395(double[] nm, double[] flux, double readNoise, long seed) {
-        PixelGrid grid = PixelGrid.linear(395 - 0.025, 395 + 0.05 * 1023.5, 1024);
+        return window(395, 0.05, 2.2, nm, flux, readNoise, seed);
+    }
+
+    /** Counts of an invented 1024-pixel spectrometer seeing start + step p nm, Gaussian lines. */
+    private static double[] window(double start, double step, double fwhmPixels, double[] nm, double[] flux,
+            double readNoise, long seed) {
+        PixelGrid grid = PixelGrid.linear(start - step / 2, start + step * 1023.5, 1024);
         double[] fwhm = new double[nm.length];
-        java.util.Arrays.fill(fwhm, 2.2 * 0.05);
+        java.util.Arrays.fill(fwhm, fwhmPixels * step);
         double[] expected = new double[1024];
         new LineRenderer(grid, Instrument.ideal(), 12).render(nm, flux, fwhm, new double[nm.length], expected);
         double[] counts = new double[1024];
@@ -232,14 +238,7 @@ class CalibratorTest {
 
     /** Counts of an invented 1024-pixel spectrometer seeing 400 + 0.15 p nm, lines 1.9 pixels wide. */
     private static double[] window400(double[] nm, double[] flux, double readNoise, long seed) {
-        PixelGrid grid = PixelGrid.linear(400 - 0.075, 400 + 0.15 * 1023.5, 1024);
-        double[] fwhm = new double[nm.length];
-        java.util.Arrays.fill(fwhm, 1.9 * 0.15);
-        double[] expected = new double[1024];
-        new LineRenderer(grid, Instrument.ideal(), 12).render(nm, flux, fwhm, new double[nm.length], expected);
-        double[] counts = new double[1024];
-        Noise.apply(expected, readNoise, seed, counts);
-        return counts;
+        return window(400, 0.15, 1.9, nm, flux, readNoise, seed);
     }
 
     /**
