@@ -138,7 +138,9 @@ public final class Schemas {
      * (strong lines in range left unmatched, "species label"); {@code presence} (array of
      * {@link #PRESENCE}); {@code plasma} (array of {@link #PLASMA}, null unless asked for);
      * {@code failure_code} and {@code failure} (the job's error code and message when it refused
-     * this spectrum, every other result column then null).
+     * this spectrum, every other result column then null); {@code shifts_tried} (the independent
+     * shifts a velocity or offset search tried, {@code Identification.shiftsTried()}, 1 without a
+     * search: the presences' chance probabilities are over them, their chance counts one shift's).
      */
     public static final StructType IDENTIFIED_SPECTRA = struct(
             required("id", DataTypes.StringType),
@@ -156,7 +158,8 @@ public final class Schemas {
             optional("presence", DataTypes.createArrayType(PRESENCE, false)),
             optional("plasma", DataTypes.createArrayType(PLASMA, false)),
             optional("failure_code", DataTypes.StringType),
-            optional("failure", DataTypes.StringType));
+            optional("failure", DataTypes.StringType),
+            optional("shifts_tried", DataTypes.DoubleType));
 
     /**
      * Identification output, one row per peak ({@link SurveyIdentification.Result#peaks()}):

@@ -480,6 +480,7 @@ public final class SurveyIdentification {
             }
             out.setNullAt(14);
             out.setNullAt(15);
+            out.write(16, result.shiftsTried());
             return out.getRow();
         }
 
@@ -493,6 +494,7 @@ public final class SurveyIdentification {
             }
             Catalyst.string(out, 14, Catalyst.utf8(e.code()));
             Catalyst.string(out, 15, Catalyst.utf8(e.getMessage()));
+            out.setNullAt(16);
             return out.getRow();
         }
 

@@ -230,6 +230,7 @@ class SurveyIdentificationTest {
         }
         assertEquals(missing, row.getList(11));
         List<Row> presence = row.getList(12);
+        assertEquals(id.shiftsTried(), row.getDouble(row.fieldIndex("shifts_tried")));
         List<Identification.SpeciesPresence> expected = id.speciesPresence();
         assertEquals(expected.size(), presence.size());
         for (int k = 0; k < expected.size(); k++) {
