@@ -553,7 +553,7 @@ public final class PeakFinder {
                     // First pass: the observed counts stand in for the line's Poisson variance, at
                     // least one count (Neyman's modified chi-square, common practice): a pixel with no
                     // counts where the line still puts some would otherwise pin the fit.
-                    s[u] = sigma != null ? sigma[i] : Math.sqrt(noise[i] * noise[i] + Math.max(1, line[i]));
+                    s[u] = localSigma(sigma, noise, Math.max(1, line[i]), i);
                     u++;
                 }
             }

@@ -315,9 +315,12 @@ public final class Identification {
      * @return the shifts, at least 1
      */
     public double shiftsTried() {
-        double[] sorted = ascending(peaks.wavelengths());
         double[] sigmas = ascending(peaks.sigmas());
-        double typicalSigma = sigmas[sigmas.length / 2];
+        return shiftsTried(ascending(peaks.wavelengths()), sigmas[sigmas.length / 2]);
+    }
+
+    /** {@link #shiftsTried()} from the peaks' sorted wavelengths and their typical uncertainty. */
+    private double shiftsTried(double[] sorted, double typicalSigma) {
         double middle = sorted[sorted.length / 2];
         double searched = searchRelativeSpan * middle + searchSpan;
         return searched > 0 ? Math.max(1, searched / (2 * tolerance.halfWidth(middle, typicalSigma, 0))) : 1;
@@ -385,7 +388,7 @@ public final class Identification {
         double typicalSigma = sigmas[sigmas.length / 2];
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
-        double trials = shiftsTried();
+        double trials = shiftsTried(sorted, typicalSigma);
         for (int j = 0; j < lines.size(); j++) {
             int s = lines.speciesIndex(j);
             matched[s] += used[j] ? 1 : 0;
