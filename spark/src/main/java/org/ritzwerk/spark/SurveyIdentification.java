@@ -348,7 +348,7 @@ public final class SurveyIdentification {
             for (int i = 0; i < n; i++) {
                 int j = result.line(i);
                 if (j >= 0) {
-                    matched[m++] = lines.wavelength(j);
+                    matched[m++] = result.matchedPosition(i);
                 }
             }
             double[] converted = new double[m];

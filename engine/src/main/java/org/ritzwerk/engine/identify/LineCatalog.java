@@ -25,13 +25,37 @@ public final class LineCatalog {
     private final boolean[] blend;
     /** Per blend, the wavelength span of its components (metres; 0 for other lines). */
     private final double[] spread;
+    /**
+     * Per blend with declared components, their wavelengths minus the line's (metres), ascending;
+     * null for every other line, or null altogether when no line has components.
+     */
+    private final double[][] parts;
+    /** The components' relative strengths, in the order of {@link #parts}. */
+    private final double[][] partWeights;
+    /** The largest distance of a component below its line's wavelength, and above it (metres). */
+    private final double partsBelow;
+    private final double partsAbove;
     private final List<Species> speciesList;
     private final double maxSigma;
 
     private LineCatalog(double[] wavelength, double[] sigma, double[] strength, int[] species, String[] label,
-            boolean[] blend, double[] spread, List<Species> speciesList) {
+            boolean[] blend, double[] spread, double[][] parts, double[][] partWeights, List<Species> speciesList) {
         this.blend = blend;
         this.spread = spread;
+        this.parts = parts;
+        this.partWeights = partWeights;
+        double below = 0;
+        double above = 0;
+        if (parts != null) {
+            for (double[] offsets : parts) {
+                for (double d : offsets == null ? new double[0] : offsets) {
+                    below = Math.max(below, -d);
+                    above = Math.max(above, d);
+                }
+            }
+        }
+        this.partsBelow = below;
+        this.partsAbove = above;
         this.wavelength = wavelength;
         this.sigma = sigma;
         this.strength = strength;
@@ -128,6 +152,135 @@ public final class LineCatalog {
         return spread;
     }
 
+    /**
+     * Where line j would be seen by a peak at x whose tolerance has half-width h: for a blend
+     * with declared components
+     * ({@link Builder#addBlend(Species, double, double, double, String, double[], double[])}),
+     * its wavelength (the components' weighted centroid, where the instrument does not resolve
+     * them) when x lies within h of it, else the nearest to x of its wavelength and the weighted
+     * centroids of the groups its components form when parted at every gap wider than 2 h (the
+     * groups a peak of that precision can tell apart, where the instrument resolves them); with
+     * one group, the wavelength alone; for every other line its wavelength. A peak that matched
+     * the centroid is thus never moved to a group, and a resolved group beside it is found.
+     *
+     * @param j     line index
+     * @param x     a peak's vacuum wavelength, metres
+     * @param reach the tolerance's half-width h at the peak, metres
+     * @return that position, metres
+     */
+    public double nearestPosition(int j, double x, double reach) {
+        double best = wavelength[j];
+        double[] offsets = parts == null ? null : parts[j];
+        if (offsets == null || offsets.length < 2 || Math.abs(x - best) <= reach) {
+            return best;
+        }
+        double[] weights = partWeights[j];
+        double sum = 0;
+        double weighted = 0;
+        for (int k = 0; k < offsets.length; k++) {
+            sum += weights[k];
+            weighted += weights[k] * offsets[k];
+            boolean last = k == offsets.length - 1;
+            if (last || offsets[k + 1] - offsets[k] > 2 * reach) {
+                if (last && sum == total(weights)) {
+                    return best; // one group: the instrument sees the centroid
+                }
+                double at = wavelength[j] + weighted / sum;
+                if (Math.abs(x - at) < Math.abs(x - best)) {
+                    best = at;
+                }
+                sum = 0;
+                weighted = 0;
+            }
+        }
+        return best;
+    }
+
+    private static double total(double[] weights) {
+        double sum = 0;
+        for (double w : weights) {
+            sum += w;
+        }
+        return sum;
+    }
+
+    /**
+     * @param j     line index
+     * @param reach a tolerance's half-width h, metres
+     * @return every position a peak may see line j at ({@link #nearestPosition}): its wavelength,
+     *         then its component groups' centroids where they part at that h; metres
+     */
+    double[] positions(int j, double reach) {
+        double[] offsets = parts == null ? null : parts[j];
+        if (offsets == null || offsets.length < 2) {
+            return new double[] {wavelength[j]};
+        }
+        double[] weights = partWeights[j];
+        double[] at = new double[offsets.length + 1];
+        at[0] = wavelength[j];
+        int n = 1;
+        double sum = 0;
+        double weighted = 0;
+        for (int k = 0; k < offsets.length; k++) {
+            sum += weights[k];
+            weighted += weights[k] * offsets[k];
+            if (k == offsets.length - 1 || offsets[k + 1] - offsets[k] > 2 * reach) {
+                at[n++] = wavelength[j] + weighted / sum;
+                sum = 0;
+                weighted = 0;
+            }
+        }
+        return n == 2 ? new double[] {wavelength[j]} : Arrays.copyOf(at, n);
+    }
+
+    /**
+     * @param j line index
+     * @return the line's components' vacuum wavelengths (metres) as declared, ascending, or an
+     *         empty array for a line without declared components
+     */
+    public double[] componentPositions(int j) {
+        double[] offsets = parts == null ? null : parts[j];
+        if (offsets == null) {
+            return new double[0];
+        }
+        double[] at = new double[offsets.length];
+        for (int k = 0; k < at.length; k++) {
+            at[k] = wavelength[j] + offsets[k];
+        }
+        return at;
+    }
+
+    /** @return how far below its wavelength some line's component lies, metres (0 when none) */
+    double partsBelow() {
+        return partsBelow;
+    }
+
+    /** @return how far above its wavelength some line's component lies, metres (0 when none) */
+    double partsAbove() {
+        return partsAbove;
+    }
+
+    /**
+     * The length of wavelength within h of line j's {@link #positions}: 2 h for a line seen at
+     * one position, the union of the windows around each for a blend whose components part.
+     *
+     * @param j line index
+     * @param h a half-width, metres
+     * @return the length, metres
+     */
+    double windowLength(int j, double h) {
+        double[] at = positions(j, h);
+        if (at.length == 1) {
+            return 2 * h;
+        }
+        Arrays.sort(at);
+        double length = 2 * h;
+        for (int k = 1; k < at.length; k++) {
+            length += Math.min(2 * h, at[k] - at[k - 1]);
+        }
+        return length;
+    }
+
     /** @return the blend flags, or null when no line is a blend */
     boolean[] blends() {
         for (boolean b : blend) {
@@ -168,12 +321,20 @@ public final class LineCatalog {
         double[] moved = new double[wavelength.length];
         double[] movedSigma = new double[wavelength.length];
         double[] movedSpread = new double[wavelength.length];
+        double[][] movedParts = parts == null ? null : new double[parts.length][];
         for (int j = 0; j < moved.length; j++) {
             moved[j] = wavelength[j] * (1 + redshift);
             movedSigma[j] = sigma[j] * (1 + redshift);
             movedSpread[j] = spread[j] * (1 + redshift);
+            if (movedParts != null && parts[j] != null) {
+                movedParts[j] = new double[parts[j].length];
+                for (int k = 0; k < parts[j].length; k++) {
+                    movedParts[j][k] = parts[j][k] * (1 + redshift);
+                }
+            }
         }
-        return new LineCatalog(moved, movedSigma, strength, species, label, blend, movedSpread, speciesList);
+        return new LineCatalog(moved, movedSigma, strength, species, label, blend, movedSpread, movedParts,
+                partWeights, speciesList);
     }
 
     /**
@@ -191,7 +352,8 @@ public final class LineCatalog {
                 throw new IllegalArgumentException("offset " + metres + " m moves line " + j + " below zero");
             }
         }
-        return new LineCatalog(moved, sigma, strength, species, label, blend, spread, speciesList);
+        return new LineCatalog(moved, sigma, strength, species, label, blend, spread, parts, partWeights,
+                speciesList);
     }
 
     /** Collects lines; not thread-safe. */
@@ -204,6 +366,8 @@ public final class LineCatalog {
         private String[] label = new String[64];
         private boolean[] blend = new boolean[64];
         private double[] spread = new double[64];
+        private double[][] parts = new double[64][];
+        private double[][] partWeights = new double[64][];
         private int size;
 
         private Builder() {
@@ -264,6 +428,60 @@ public final class LineCatalog {
             return this;
         }
 
+        /**
+         * Adds a blend with its components' wavelengths and strengths: it spreads over them
+         * (longest minus shortest), and a peak may be matched to it at its wavelength (the
+         * components' weighted centroid, as an instrument that does not resolve them shows it) or
+         * at the centroid of a group of components it can tell apart (as one that resolves them
+         * shows them; {@link LineCatalog#nearestPosition}).
+         *
+         * @param s                species
+         * @param vacuumMetres     vacuum wavelength in metres (the weighted mean of the components)
+         * @param sigmaMetres      standard uncertainty in metres
+         * @param expected         expected intensity, or NaN
+         * @param name             label, or null
+         * @param componentsMetres the components' vacuum wavelengths, metres; finite, positive
+         * @param weights          their relative strengths (NaN or 0 where not known: then all
+         *                         count alike), one per component
+         * @return this builder
+         */
+        public Builder addBlend(Species s, double vacuumMetres, double sigmaMetres, double expected, String name,
+                double[] componentsMetres, double[] weights) {
+            if (weights.length != componentsMetres.length) {
+                throw new IllegalArgumentException("line " + size + ": " + componentsMetres.length + " components but "
+                        + weights.length + " weights");
+            }
+            double shortest = Double.POSITIVE_INFINITY;
+            double longest = Double.NEGATIVE_INFINITY;
+            boolean allKnown = true;
+            for (int k = 0; k < componentsMetres.length; k++) {
+                double c = componentsMetres[k];
+                if (!(c > 0) || Double.isInfinite(c)) {
+                    throw new IllegalArgumentException("line " + size + ": a component's wavelength must be finite and"
+                            + " positive, got " + c + " m");
+                }
+                allKnown &= weights[k] > 0 && Double.isFinite(weights[k]);
+                shortest = Math.min(shortest, c);
+                longest = Math.max(longest, c);
+            }
+            addBlend(s, vacuumMetres, sigmaMetres, expected, name,
+                    componentsMetres.length == 0 ? 0 : longest - shortest);
+            Integer[] order = new Integer[componentsMetres.length];
+            for (int k = 0; k < order.length; k++) {
+                order[k] = k;
+            }
+            Arrays.sort(order, (a, b) -> Double.compare(componentsMetres[a], componentsMetres[b]));
+            double[] offsets = new double[order.length];
+            double[] w = new double[order.length];
+            for (int k = 0; k < order.length; k++) {
+                offsets[k] = componentsMetres[order[k]] - vacuumMetres;
+                w[k] = allKnown ? weights[order[k]] : 1;
+            }
+            parts[size - 1] = offsets;
+            partWeights[size - 1] = w;
+            return this;
+        }
+
         private Builder add(Species s, double vacuumMetres, double sigmaMetres, double expected, String name,
                 boolean blended) {
             Objects.requireNonNull(s, "species");
@@ -288,6 +506,8 @@ public final class LineCatalog {
                 label = Arrays.copyOf(label, capacity);
                 blend = Arrays.copyOf(blend, capacity);
                 spread = Arrays.copyOf(spread, capacity);
+                parts = Arrays.copyOf(parts, capacity);
+                partWeights = Arrays.copyOf(partWeights, capacity);
             }
             int index = speciesList.indexOf(s);
             if (index < 0) {
@@ -301,6 +521,8 @@ public final class LineCatalog {
             label[size] = name;
             blend[size] = blended;
             spread[size] = 0;
+            parts[size] = null;
+            partWeights[size] = null;
             size++;
             return this;
         }
@@ -328,6 +550,9 @@ public final class LineCatalog {
             String[] lb = new String[size];
             boolean[] bl = new boolean[size];
             double[] sp2 = new double[size];
+            double[][] pa = new double[size][];
+            double[][] pw = new double[size][];
+            boolean anyParts = false;
             for (int k = 0; k < size; k++) {
                 int j = order[k];
                 w[k] = wavelength[j];
@@ -340,8 +565,12 @@ public final class LineCatalog {
                 lb[k] = label[j];
                 bl[k] = blend[j];
                 sp2[k] = spread[j];
+                pa[k] = parts[j];
+                pw[k] = partWeights[j];
+                anyParts |= parts[j] != null;
             }
-            return new LineCatalog(w, u, st, sp, lb, bl, sp2, Collections.unmodifiableList(new ArrayList<>(speciesList)));
+            return new LineCatalog(w, u, st, sp, lb, bl, sp2, anyParts ? pa : null, anyParts ? pw : null,
+                    Collections.unmodifiableList(new ArrayList<>(speciesList)));
         }
 
         private double minPositive(int s) {

@@ -104,6 +104,8 @@ public final class ShiftSearch {
                 double lo = relative ? x / (1 + range) : x - range;
                 double hi = relative ? x / (1 - range) : x + range;
                 int j = Identifier.lowerBound(lw, lo);
+                // (a blend votes from its centroid only: its groups of components would add
+                // aliases of the shift; the refinement then finds resolved groups)
                 for (; j < lw.length && lw[j] <= hi; j++) {
                     if (size == votes.length) {
                         if (size >= MAX_VOTES) {
@@ -159,11 +161,13 @@ public final class ShiftSearch {
         boolean weighted = true;
         for (int i = 0; i < peaks.size(); i++) {
             int j = matches.line(i);
-            if (j < 0 || matches.status(i) != Identification.MATCHED) {
+            if (j < 0 || !matches.matchedByOdds(i)) {
                 continue;
             }
             double x = peaks.wavelength(i);
-            double rest = lines.wavelength(j);
+            // where the match saw the line (a blend's component or centroid), back in the rest frame
+            double seen = matches.matchedPosition(i);
+            double rest = relative ? seen / (1 + shift) : seen - shift;
             double implied = relative ? x / rest - 1 : x - rest;
             double sigma = Math.hypot(peaks.sigma(i), lines.sigma(j));
             double s = relative ? sigma / rest : sigma;
