@@ -127,6 +127,7 @@ final class IdentifyCommand implements Callable<Integer> {
         OptionRules.distinct("--lines", lineSets);
         checkOptions();
         PeakFiles.Peaks read = PeakFiles.read(peaksFile);
+        noteMissingIntensities(read, peaksFile).ifPresent(spec.commandLine().getErr()::println);
         double[] sigmas = read.allUncertain() ? read.uncertainties() : null;
         PeakList peaks = PeakList.of(read.positions(), sigmas, read.allIntense() ? read.intensities() : null,
                 read.unit(), read.medium());
@@ -268,6 +269,29 @@ final class IdentifyCommand implements Callable<Integer> {
      * line of uncertainty 0 exactly, and one left empty cannot be weighed. Refuses them all, each
      * named by its file line, instead of leaving them unexplained.
      */
+    /**
+     * Intensities weigh the matches only when every peak has one: a file where some peaks lack
+     * one has them all left out, which a note says, naming the peaks without.
+     */
+    static java.util.Optional<String> noteMissingIntensities(PeakFiles.Peaks read, Path file) {
+        double[] intensities = read.intensities();
+        int[] fileLines = read.lines();
+        List<String> without = new java.util.ArrayList<>();
+        for (int i = 0; i < intensities.length; i++) {
+            if (Double.isNaN(intensities[i])) {
+                without.add(Integer.toString(fileLines[i]));
+            }
+        }
+        if (without.isEmpty() || without.size() == intensities.length) {
+            return java.util.Optional.empty();
+        }
+        String shown = String.join(", ", without.subList(0, Math.min(10, without.size())))
+                + (without.size() > 10 ? " and " + (without.size() - 10) + " more" : "");
+        return java.util.Optional.of("note: the intensities are not used (the match ignores them): "
+                + without.size() + " of " + intensities.length + " peaks have none (" + file + (without.size() == 1 ? " line " : " lines ") + shown
+                + "); give every peak an intensity, or none");
+    }
+
     private static void refuseZeroUncertainties(PeakFiles.Peaks read, Path file) {
         List<String> bad = new java.util.ArrayList<>();
         double[] uncertainties = read.uncertainties();
@@ -407,8 +431,8 @@ final class IdentifyCommand implements Callable<Integer> {
                     : result.status(i) == Identification.AMBIGUOUS ? "ambiguous" : "unexplained";
             Double linePosition = null;
             if (j >= 0) {
-                SpectralArrays.convert(new double[] {lines.wavelength(j)}, Unit.METRE, Medium.vacuum(), unit, medium,
-                        linePositions);
+                SpectralArrays.convert(new double[] {result.matchedPosition(i)}, Unit.METRE, Medium.vacuum(), unit,
+                        medium, linePositions);
                 linePosition = linePositions[0];
             }
             table.add(i + 1, fileLines[i], positions[i], status, j < 0 ? null : lines.species(j).notation(),
@@ -448,6 +472,11 @@ final class IdentifyCommand implements Callable<Integer> {
         }
         for (Identification.SpeciesPresence presence : result.speciesPresence()) {
             summary.println(presenceLine(presence, result.shiftsTried()));
+        }
+        if ((fit != null || offsetFit != null) && !result.someSpeciesBeyondChance()) {
+            summary.println("note: at the " + (fit != null ? "velocity" : "offset") + " found no species shows its"
+                    + " strong lines beyond chance, so the shift and the matches rest on coincidences: the true shift"
+                    + " may lie outside the range searched, or the species offered may be absent");
         }
         summary.flush();
     }

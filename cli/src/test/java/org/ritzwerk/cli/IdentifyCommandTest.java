@@ -1,6 +1,7 @@
 package org.ritzwerk.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
@@ -60,6 +61,22 @@ class IdentifyCommandTest {
     }
 
     @Test
+    void intensitiesGivenForSomePeaksOnlyAreLeftOutWithANote(@TempDir Path dir) throws IOException {
+        // the Balmer peaks above, the third without an intensity
+        Path peaks = dir.resolve("some.csv");
+        Files.writeString(peaks, HEADER + "position,uncertainty,intensity\n410.174,0.003,80\n434.047,0.003,150\n"
+                + "486.135,0.003,\n656.279,0.003,1500\n", StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.err().contains("note: the intensities are not used (the match ignores them): 1 of 4 peaks have"
+                + " none (" + peaks + " line 12)"), run.err());
+        Path all = dir.resolve("all.csv");
+        Files.writeString(all, HEADER + "position,uncertainty,intensity\n410.174,0.003,80\n434.047,0.003,150\n"
+                + "486.135,0.003,400\n656.279,0.003,1500\n", StandardCharsets.UTF_8);
+        assertFalse(CliTest.run("identify", all.toString(), "--species", "H I").err().contains("intensities"));
+    }
+
+    @Test
     void findsTheVelocityFirst(@TempDir Path dir) throws IOException {
         // The same lines seen from a source receding at 60 km/s (lambda times 1 + v/c).
         double factor = 1 + 60e3 / 299_792_458.0;
@@ -76,6 +93,7 @@ class IdentifyCommandTest {
                 .matcher(run.out());
         assertTrue(velocity.find(), run.out());
         assertEquals(60, Double.parseDouble(velocity.group(1)), 3 * Double.parseDouble(velocity.group(2)) + 1);
+        assertFalse(run.out().contains("rest on coincidences"), run.out());
     }
 
     @Test
