@@ -37,8 +37,8 @@ import org.ritzwerk.quantity.Unit;
  *
  * <p>Positions become vacuum wavenumbers (cm^-1) through the medium's dispersion; an uncertainty u
  * becomes {@code u |d sigma / dx|}, the first-order propagation through the conversion (JCGM
- * 100:2008, eq. 10), the derivative by a central difference of step {@code min(u, 1e-6 x)}, so
- * that for wavelengths in air it includes the air's dispersion.
+ * 100:2008, eq. 10), the derivative by a central difference of step {@code 1e-5 x}, so that for
+ * wavelengths in air it includes the air's dispersion.
  *
  * <p>Refused, every problem with file, line and column, all at once: the tabular rules, a
  * position outside the medium's range, upper and lower the same level, and a pair of levels given
@@ -154,7 +154,7 @@ public final class MeasuredLineFiles {
                 continue;
             }
             pairs.putIfAbsent(upper + "\u0000" + lower, row.line());
-            double h = Math.min(uncertainty, 1e-6 * position);
+            double h = 1e-5 * position;      // rounding and truncation errors both near 1e-11 relative
             double[] x = {position, position + h, position - h};
             try {
                 SpectralArrays.convert(x, unit, medium, Unit.PER_CENTIMETRE, null, x);
