@@ -17,7 +17,7 @@ import picocli.CommandLine.Command;
             "Safety section of README.md and follow your local rules before using them."},
         subcommands = {ConvertCommand.class, LevelsCommand.class, LinesCommand.class, IdentifyCommand.class,
             DataCommand.class, SynthCommand.class, CalibrateCommand.class, SeriesCommand.class, RydbergCommand.class,
-            DemoCommand.class, CommandLine.HelpCommand.class})
+            FitLevelsCommand.class, DemoCommand.class, CommandLine.HelpCommand.class})
 final class RitzwerkCommand implements Runnable {
 
     @CommandLine.Spec

@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.ritz;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
@@ -28,16 +29,37 @@ import org.apache.commons.math4.legacy.linear.SingularMatrixException;
  * <p>Solved with Apache Commons Math's QR decomposition of the weighted design matrix; the
  * covariance by its Cholesky decomposition of {@code A^T W A}.
  *
- * <p><b>Flags.</b> Each line's residual {@code r_k = sigma_k - sigma_Ritz,k} is compared with its
- * own standard deviation {@code sqrt(u_k^2 - u_Ritz,k^2)} (the standardised residual of weighted
- * least squares; common practice): beyond {@link #withOutlierThreshold the threshold} (3 unless
- * set) the line is flagged {@link LevelOptimum.LineFlag#OUTLIER}, a likely misassignment or blend. A
- * line that alone determines a level ({@code u_Ritz = u}, residual 0) cannot be checked and is
- * flagged {@link LevelOptimum.LineFlag#DETERMINES_LEVEL}. Flagged lines are not removed: the caller
- * decides.
+ * <p><b>Outliers.</b> Each line's residual {@code r_k = sigma_k - sigma_Ritz,k} is compared with
+ * its own standard deviation {@code sqrt(u_k^2 - u_Ritz,k^2)}: the normalised residual of weighted
+ * least squares with known uncertainties, which equals the leave-one-out (deleted) residual
+ * {@code r_k / (1 - h_k)} over its standard deviation {@code u_k / sqrt(1 - h_k)}, h_k =
+ * {@code u_Ritz,k^2 / u_k^2} the line's leverage (Cook and Weisberg, <i>Residuals and Influence in
+ * Regression</i>, 1982, ch. 2, from memory; with the variance known, the internally and externally studentised
+ * residuals coincide). Outliers are found the way evaluators and surveyors do (iterative data
+ * snooping, W. Baarda 1968, from memory; common practice): the line with the largest normalised residual beyond
+ * {@link #withOutlierThreshold the threshold} (3 unless set) is left out and the levels are fitted
+ * again, until no kept line exceeds it. A misassigned line drags the levels it touches, so the other
+ * lines' residuals are only meaningful once it is out; one line at a time keeps an honest line from
+ * being left out with it. The levels, their covariance, chi^2 and the degrees of freedom come from the
+ * lines kept; every line, kept or not, has its residual against that final fit. A line left out is
+ * flagged {@link LevelOptimum.LineFlag#OUTLIER} ({@link LevelOptimum#leftOut()} in the order they
+ * were left out) and its normalised residual is {@code r_k / sqrt(u_k^2 + u_Ritz,k^2)}, a prediction
+ * from levels it did not touch; it is not taken back in, even if that later falls within the
+ * threshold. When the worst line's residual is perfectly correlated with other kept lines' (with
+ * it they alone join part of the level system to the rest: the only two lines of a level, two
+ * measurements of one line, the lines of a single loop), their normalised residuals are equal in
+ * size whatever the data, so nothing tells which is wrong. The least precise of them (the latest on
+ * a tie) is left out all the same, so that their disagreement stops pulling the other levels, and
+ * the ones kept are flagged {@link LevelOptimum.LineFlag#UNRESOLVED} ({@link
+ * LevelOptimum#unresolvedWith} names the line left out in their place): the user must choose.
+ * A kept line that alone determines a level ({@code u_Ritz = u}, residual 0) cannot be
+ * checked and is flagged {@link LevelOptimum.LineFlag#DETERMINES_LEVEL} (it is never left out, so
+ * every level stays connected); the others are {@link LevelOptimum.LineFlag#FITTED}.
  *
  * <p>Refused with a {@link RitzException}: levels that no chain of lines connects to the
- * reference ({@link RitzException#UNCONNECTED}, naming them). Immutable and thread-safe.
+ * reference ({@link RitzException#UNCONNECTED}, naming them); a line whose fitted upper level does
+ * not lie above its lower level ({@link RitzException#BAD_ASSIGNMENT}, naming the line, both labels
+ * and energies: its assignment is reversed or wrong). Immutable and thread-safe.
  */
 public final class LevelOptimizer {
 
@@ -49,13 +71,13 @@ public final class LevelOptimizer {
         this.threshold = threshold;
     }
 
-    /** @return an optimizer flagging lines beyond 3 standard deviations */
+    /** @return an optimizer leaving out lines beyond 3 standard deviations, one at a time */
     public static LevelOptimizer defaults() {
         return DEFAULTS;
     }
 
     /**
-     * @param deviations the standardised residual beyond which a line is flagged, finite, positive
+     * @param deviations the normalised residual beyond which the worst line is left out, finite, positive
      * @return this optimizer with that threshold
      */
     public LevelOptimizer withOutlierThreshold(double deviations) {
@@ -72,9 +94,12 @@ public final class LevelOptimizer {
 
     /**
      * @param problem the measured lines and the reference level
-     * @return the optimised levels, their covariance and every line's Ritz wavenumber and flag
+     * @return the optimised levels (from the lines kept), their covariance and every line's Ritz
+     *         wavenumber, residual and flag
      * @throws RitzException ({@link RitzException#UNCONNECTED}) naming the levels not connected to the reference;
-     *                       ({@link RitzException#TOO_FEW}) for a problem without lines
+     *                       ({@link RitzException#TOO_FEW}) for a problem without lines;
+     *                       ({@link RitzException#BAD_ASSIGNMENT}) naming a line whose fitted upper level is not
+     *                       above its lower level
      */
     public LevelOptimum optimize(MeasuredLines problem) {
         Objects.requireNonNull(problem, "problem");
@@ -82,14 +107,172 @@ public final class LevelOptimizer {
             throw new RitzException(RitzException.TOO_FEW, "no measured lines: the levels need at least one line "
                     + "joining them to the reference level");
         }
-        int levels = problem.levels().size();
         int lines = problem.size();
         checkConnected(problem);
-        int p = levels - 1;                     // unknowns: every level but the reference (index 0)
-        double ref = problem.referencePerCm();
-        double[][] a = new double[lines][p];
-        double[] b = new double[lines];
+        boolean[] kept = new boolean[lines];
+        Arrays.fill(kept, true);
+        List<Integer> leftOut = new ArrayList<>();
+        int[] partner = new int[lines];
+        Arrays.fill(partner, -1);
+        Fit fit = solve(problem, kept);
+        // iterative data snooping: leave out the worst line beyond the threshold, fit again
+        while (true) {
+            int worst = -1;
+            double largest = threshold;
+            for (int k = 0; k < lines; k++) {
+                double z = kept[k] ? Math.abs(fit.normalised(problem, k, true)) : Double.NaN;
+                if (z > largest) {
+                    largest = z;
+                    worst = k;
+                }
+            }
+            if (worst < 0) {
+                break;
+            }
+            List<Integer> mirrors = fit.mirrors(problem, kept, worst);
+            if (!mirrors.isEmpty()) {
+                // the data cannot tell which of these is wrong: leave out the least precise (the latest on a
+                // tie), so the discrepancy stops pulling the other levels, and flag the ones kept
+                mirrors.add(worst);
+                int drop = worst;
+                for (int m : mirrors) {
+                    double um = problem.uncertaintyPerCm(m);
+                    double ud = problem.uncertaintyPerCm(drop);
+                    if (um > ud || (um == ud && m > drop)) {
+                        drop = m;
+                    }
+                }
+                for (int m : mirrors) {
+                    if (m != drop) {
+                        partner[m] = drop;
+                    }
+                }
+                worst = drop;
+            }
+            kept[worst] = false;
+            leftOut.add(worst);
+            fit = solve(problem, kept);
+        }
+        double[] ritz = new double[lines];
+        double[] ritzSigma = new double[lines];
+        double[] standardised = new double[lines];
+        LevelOptimum.LineFlag[] flags = new LevelOptimum.LineFlag[lines];
+        double chi2 = 0;
+        int used = 0;
         for (int k = 0; k < lines; k++) {
+            int u = problem.upper(k);
+            int l = problem.lower(k);
+            ritz[k] = fit.energy[u] - fit.energy[l];
+            if (!(ritz[k] > 0)) {
+                throw new RitzException(RitzException.BAD_ASSIGNMENT, String.format(Locale.ROOT,
+                        "line %d (%s): its upper level '%s' came out at %.6f cm-1, not above its lower level '%s' "
+                        + "at %.6f cm-1 (Ritz wavenumber %.6f cm-1); the assignment is reversed or wrong",
+                        k + 1, problem.name(k), problem.levels().get(u), fit.energy[u], problem.levels().get(l),
+                        fit.energy[l], ritz[k]));
+            }
+            ritzSigma[k] = Math.sqrt(fit.variance(u, l));
+            double s = problem.uncertaintyPerCm(k);
+            standardised[k] = fit.normalised(problem, k, kept[k]);
+            if (!kept[k]) {
+                flags[k] = LevelOptimum.LineFlag.OUTLIER;
+                continue;
+            }
+            double r = problem.wavenumberPerCm(k) - ritz[k];
+            chi2 += r * r / (s * s);
+            used++;
+            if (partner[k] >= 0) {
+                flags[k] = LevelOptimum.LineFlag.UNRESOLVED;
+            } else if (Double.isNaN(standardised[k])) {
+                flags[k] = LevelOptimum.LineFlag.DETERMINES_LEVEL;
+            } else {
+                flags[k] = LevelOptimum.LineFlag.FITTED;
+            }
+        }
+        return new LevelOptimum(problem, fit.energy, fit.covariance, ritz, ritzSigma, standardised, flags, chi2,
+                used - (problem.levels().size() - 1), threshold, leftOut, partner);
+    }
+
+    /** The energies and covariance from the kept lines. */
+    private static final class Fit {
+        final double[] energy;
+        final double[][] covariance;
+
+        Fit(double[] energy, double[][] covariance) {
+            this.energy = energy;
+            this.covariance = covariance;
+        }
+
+        /** @return the variance of {@code E_u - E_l}, cm^-2 (rounding below 0 taken as 0) */
+        double variance(int u, int l) {
+            return Math.max(0, covariance[u][u] + covariance[l][l] - 2 * covariance[u][l]);
+        }
+
+        /**
+         * @return the other kept lines whose residuals are perfectly correlated with line k's (correlation
+         *         +-1 within 1e-9: with k they alone join one part of the level system to the rest, so
+         *         their normalised residuals are equal in size whatever the data); a new mutable list
+         */
+        List<Integer> mirrors(MeasuredLines problem, boolean[] kept, int k) {
+            List<Integer> found = new ArrayList<>();
+            int uk = problem.upper(k);
+            int lk = problem.lower(k);
+            double sk = problem.uncertaintyPerCm(k);
+            double vk = sk * sk - variance(uk, lk);
+            for (int j = 0; j < kept.length; j++) {
+                if (j == k || !kept[j]) {
+                    continue;
+                }
+                int uj = problem.upper(j);
+                int lj = problem.lower(j);
+                double sj = problem.uncertaintyPerCm(j);
+                double vj = sj * sj - variance(uj, lj);
+                if (vj <= 1e-9 * sj * sj) {
+                    continue;
+                }
+                // cov(r_j, r_k) = -a_j^T C a_k for two different lines (r = (I - A C A^T W) sigma)
+                double c = covariance[uj][uk] - covariance[uj][lk] - covariance[lj][uk] + covariance[lj][lk];
+                if (Math.abs(c) >= (1 - 1e-9) * Math.sqrt(vj * vk)) {
+                    found.add(j);
+                }
+            }
+            return found;
+        }
+
+        /**
+         * @param kept whether line k took part in this fit
+         * @return its residual over its standard deviation: {@code sqrt(u^2 - u_Ritz^2)} for a kept line
+         *         (NaN when it alone determines a level), {@code sqrt(u^2 + u_Ritz^2)} for one left out
+         */
+        double normalised(MeasuredLines problem, int k, boolean kept) {
+            int u = problem.upper(k);
+            int l = problem.lower(k);
+            double r = problem.wavenumberPerCm(k) - (energy[u] - energy[l]);
+            double s = problem.uncertaintyPerCm(k);
+            double v = variance(u, l);
+            if (!kept) {
+                return r / Math.sqrt(s * s + v);
+            }
+            double rest = s * s - v;
+            return rest <= 1e-9 * s * s ? Double.NaN : r / Math.sqrt(rest);
+        }
+    }
+
+    /** Weighted least squares over the kept lines (they connect every level to the reference). */
+    private static Fit solve(MeasuredLines problem, boolean[] kept) {
+        int levels = problem.levels().size();
+        int p = levels - 1;                     // unknowns: every level but the reference (index 0)
+        int rows = 0;
+        for (boolean k : kept) {
+            rows += k ? 1 : 0;
+        }
+        double ref = problem.referencePerCm();
+        double[][] a = new double[rows][p];
+        double[] b = new double[rows];
+        int row = 0;
+        for (int k = 0; k < kept.length; k++) {
+            if (!kept[k]) {
+                continue;
+            }
             double w = 1 / problem.uncertaintyPerCm(k);
             int u = problem.upper(k);
             int l = problem.lower(k);
@@ -97,15 +280,19 @@ public final class LevelOptimizer {
             if (u == 0) {
                 rhs -= ref;
             } else {
-                a[k][u - 1] += w;
+                a[row][u - 1] += w;
             }
             if (l == 0) {
                 rhs += ref;
             } else {
-                a[k][l - 1] -= w;
+                a[row][l - 1] -= w;
             }
-            b[k] = rhs * w;
+            b[row] = rhs * w;
+            row++;
         }
+        double[] energy = new double[levels];
+        double[][] covariance = new double[levels][levels];
+        energy[0] = ref;
         RealMatrix design = new Array2DRowRealMatrix(a, false);
         double[] solution;
         double[][] inverse;
@@ -118,41 +305,13 @@ public final class LevelOptimizer {
             throw new RitzException(RitzException.UNCONNECTED, "the level system is numerically singular: "
                     + "uncertainties span too many orders of magnitude for the lines given");
         }
-        double[] energy = new double[levels];
-        double[][] covariance = new double[levels][levels];
-        energy[0] = ref;
         for (int i = 1; i < levels; i++) {
             energy[i] = solution[i - 1];
             for (int j = 1; j < levels; j++) {
                 covariance[i][j] = 0.5 * (inverse[i - 1][j - 1] + inverse[j - 1][i - 1]);
             }
         }
-        double[] ritz = new double[lines];
-        double[] ritzSigma = new double[lines];
-        double[] standardised = new double[lines];
-        LevelOptimum.LineFlag[] flags = new LevelOptimum.LineFlag[lines];
-        double chi2 = 0;
-        for (int k = 0; k < lines; k++) {
-            int u = problem.upper(k);
-            int l = problem.lower(k);
-            ritz[k] = energy[u] - energy[l];
-            double v = Math.max(0, covariance[u][u] + covariance[l][l] - 2 * covariance[u][l]);
-            ritzSigma[k] = Math.sqrt(v);
-            double s = problem.uncertaintyPerCm(k);
-            double r = problem.wavenumberPerCm(k) - ritz[k];
-            chi2 += r * r / (s * s);
-            double rest = s * s - v;
-            if (rest <= 1e-9 * s * s) {
-                standardised[k] = Double.NaN;
-                flags[k] = LevelOptimum.LineFlag.DETERMINES_LEVEL;
-            } else {
-                standardised[k] = r / Math.sqrt(rest);
-                flags[k] = Math.abs(standardised[k]) > threshold ? LevelOptimum.LineFlag.OUTLIER
-                        : LevelOptimum.LineFlag.FITTED;
-            }
-        }
-        return new LevelOptimum(problem, energy, covariance, ritz, ritzSigma, standardised, flags, chi2, lines - p,
-                threshold);
+        return new Fit(energy, covariance);
     }
 
     private static void checkConnected(MeasuredLines problem) {

@@ -2,12 +2,15 @@ package org.ritzwerk.engine.ritz;
 
 import java.util.List;
 import java.util.OptionalDouble;
+import java.util.OptionalInt;
 import org.ritzwerk.atom.Species;
 
 /**
- * The result of a {@link LevelOptimizer}: the optimised level energies with their covariance, and
- * per measured line its Ritz wavenumber with uncertainty, residual, standardised residual and flag;
- * chi^2 and degrees of freedom. Immutable and thread-safe (accessors return copies).
+ * The result of a {@link LevelOptimizer}: the optimised level energies with their covariance (from
+ * the lines kept), and per measured line, kept or left out, its Ritz wavenumber with uncertainty,
+ * its residual against that fit, its normalised residual and flag; the lines left out as outliers;
+ * chi^2 and degrees of freedom of the lines kept. Immutable and thread-safe (accessors return
+ * copies).
  */
 public final class LevelOptimum {
 
@@ -15,9 +18,19 @@ public final class LevelOptimum {
     public enum LineFlag {
         /** Fitted within the threshold. */
         FITTED,
-        /** Its standardised residual is beyond the threshold: a misassignment, blend or bad measurement. */
+        /**
+         * Left out of the fit: its normalised residual was the largest beyond the threshold when it was
+         * left out (a misassignment, blend or bad measurement); see {@link LevelOptimum#leftOut()}.
+         */
         OUTLIER,
-        /** It alone determines a level, so nothing checks it (residual 0). */
+        /**
+         * Kept, but its residual and that of a line left out were perfectly correlated (with it they alone
+         * joined part of the level system to the rest, e.g. the only two lines of a level, or two
+         * measurements of one line), so the data could not tell which was wrong; the least precise was
+         * left out. See {@link LevelOptimum#unresolvedWith}.
+         */
+        UNRESOLVED,
+        /** Kept, and it alone determines a level, so nothing checks it (residual 0). */
         DETERMINES_LEVEL
     }
 
@@ -31,9 +44,12 @@ public final class LevelOptimum {
     private final double chiSquare;
     private final int degreesOfFreedom;
     private final double threshold;
+    private final List<Integer> leftOut;
+    private final int[] partner;
 
     LevelOptimum(MeasuredLines problem, double[] energy, double[][] covariance, double[] ritz, double[] ritzSigma,
-            double[] standardised, LineFlag[] flags, double chiSquare, int degreesOfFreedom, double threshold) {
+            double[] standardised, LineFlag[] flags, double chiSquare, int degreesOfFreedom, double threshold,
+            List<Integer> leftOut, int[] partner) {
         this.problem = problem;
         this.energy = energy;
         this.covariance = covariance;
@@ -44,6 +60,8 @@ public final class LevelOptimum {
         this.chiSquare = chiSquare;
         this.degreesOfFreedom = degreesOfFreedom;
         this.threshold = threshold;
+        this.leftOut = List.copyOf(leftOut);
+        this.partner = partner;
     }
 
     /** @return the problem solved */
@@ -99,7 +117,7 @@ public final class LevelOptimum {
 
     /**
      * @param k line index
-     * @return measured minus Ritz wavenumber, cm^-1
+     * @return measured minus Ritz wavenumber, cm^-1, against the final fit (also for a line left out)
      */
     public double residualPerCm(int k) {
         return problem.wavenumberPerCm(k) - ritz[k];
@@ -107,8 +125,9 @@ public final class LevelOptimum {
 
     /**
      * @param k line index
-     * @return the residual over its own standard deviation {@code sqrt(u^2 - u_Ritz^2)}; absent for a
-     *         line that alone determines a level
+     * @return the residual over its own standard deviation against the final fit: {@code sqrt(u^2 -
+     *         u_Ritz^2)} for a kept line (the leave-one-out normalised residual), {@code sqrt(u^2 +
+     *         u_Ritz^2)} for a line left out; absent for a kept line that alone determines a level
      */
     public OptionalDouble standardisedResidual(int k) {
         return Double.isNaN(standardised[k]) ? OptionalDouble.empty() : OptionalDouble.of(standardised[k]);
@@ -122,12 +141,34 @@ public final class LevelOptimum {
         return flags[k];
     }
 
-    /** @return the weighted sum of squared residuals */
+    /**
+     * @param k line index
+     * @return whether the line took part in the final fit (not left out as an outlier)
+     */
+    public boolean isKept(int k) {
+        return flags[k] != LineFlag.OUTLIER;
+    }
+
+    /** @return the indices of the lines left out as outliers, in the order they were left out */
+    public List<Integer> leftOut() {
+        return leftOut;
+    }
+
+    /**
+     * @param k line index
+     * @return for a line {@link LineFlag#UNRESOLVED}, the line left out that it could not be told apart
+     *         from; otherwise empty
+     */
+    public OptionalInt unresolvedWith(int k) {
+        return partner[k] < 0 ? OptionalInt.empty() : OptionalInt.of(partner[k]);
+    }
+
+    /** @return the weighted sum of squared residuals of the lines kept */
     public double chiSquare() {
         return chiSquare;
     }
 
-    /** @return lines minus free levels */
+    /** @return lines kept minus free levels */
     public int degreesOfFreedom() {
         return degreesOfFreedom;
     }
@@ -158,7 +199,7 @@ public final class LevelOptimum {
 
     @Override
     public String toString() {
-        return "LevelOptimum[" + energy.length + " levels from " + ritz.length + " lines, chi2 " + chiSquare + " for "
-                + degreesOfFreedom + " degrees of freedom]";
+        return "LevelOptimum[" + energy.length + " levels from " + (ritz.length - leftOut.size()) + " of "
+                + ritz.length + " lines, chi2 " + chiSquare + " for " + degreesOfFreedom + " degrees of freedom]";
     }
 }

@@ -1,10 +1,12 @@
 package org.ritzwerk.engine.ritz;
 
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import java.util.regex.Pattern;
 
 /**
  * The problem of a level optimisation: measured line wavenumbers with their standard
@@ -12,8 +14,20 @@ import java.util.Objects;
  * level whose energy is held fixed (usually the ground level at 0). Built with {@link #builder};
  * immutable and thread-safe. Levels are numbered in the order they first appear, the reference
  * first.
+ *
+ * <p><b>Labels.</b> A label is compared after stripping its ends and turning every internal run of
+ * white space into one blank, so {@code "1s2p  3P2"} and {@code "1s2p 3P2"} name one level; that
+ * normalised form is the label reported ({@link #levels()}). Nothing else is normalised: case and
+ * punctuation still tell levels apart.
+ *
+ * <p>Refused while building (a {@link RitzException} naming the line): blank labels, a line from a
+ * level to itself, a wavenumber or uncertainty that is not finite and positive, and a pair of levels
+ * given both ways (one line as A - B, another as B - A: with positive wavenumbers one of them is
+ * reversed).
  */
 public final class MeasuredLines {
+
+    private static final Pattern WHITE_SPACE = Pattern.compile("\\p{javaWhitespace}+");
 
     private final String reference;
     private final double referencePerCm;
@@ -121,6 +135,7 @@ public final class MeasuredLines {
         private final List<Integer> lower = new ArrayList<>();
         private final List<double[]> values = new ArrayList<>();
         private final List<String> names = new ArrayList<>();
+        private final Map<List<String>, String> pairs = new HashMap<>();
 
         private Builder(String referenceLabel, double perCm) {
             if (referenceLabel == null || referenceLabel.isBlank()) {
@@ -130,7 +145,7 @@ public final class MeasuredLines {
                 throw new RitzException(RitzException.BAD_VALUE, "the reference level's energy must be finite and not "
                         + "negative cm-1, got " + perCm);
             }
-            this.reference = referenceLabel.strip();
+            this.reference = normalise(referenceLabel);
             this.referencePerCm = perCm;
             index.put(reference, 0);
         }
@@ -161,9 +176,11 @@ public final class MeasuredLines {
             if (upperLabel == null || upperLabel.isBlank() || lowerLabel == null || lowerLabel.isBlank()) {
                 throw new RitzException(RitzException.BAD_ASSIGNMENT, lineName + ": both level labels are needed");
             }
-            if (upperLabel.strip().equals(lowerLabel.strip())) {
+            String up = normalise(upperLabel);
+            String low = normalise(lowerLabel);
+            if (up.equals(low)) {
                 throw new RitzException(RitzException.BAD_ASSIGNMENT, lineName + ": upper and lower level are the "
-                        + "same ('" + upperLabel.strip() + "')");
+                        + "same ('" + up + "')");
             }
             if (!(perCm > 0) || Double.isInfinite(perCm)) {
                 throw new RitzException(RitzException.BAD_VALUE, lineName + ": wavenumber must be finite and positive "
@@ -173,11 +190,22 @@ public final class MeasuredLines {
                 throw new RitzException(RitzException.BAD_VALUE, lineName + ": uncertainty must be finite and positive "
                         + "cm-1, got " + sigmaPerCm);
             }
-            upper.add(index.computeIfAbsent(upperLabel.strip(), k -> index.size()));
-            lower.add(index.computeIfAbsent(lowerLabel.strip(), k -> index.size()));
+            String reversed = pairs.get(List.of(low, up));
+            if (reversed != null) {
+                throw new RitzException(RitzException.BAD_ASSIGNMENT, lineName + ": upper '" + up + "' and lower '"
+                        + low + "' are the other way round in " + reversed + " (lower '" + up + "', upper '" + low
+                        + "'); with positive wavenumbers one of the two is reversed");
+            }
+            pairs.putIfAbsent(List.of(up, low), lineName);
+            upper.add(index.computeIfAbsent(up, k -> index.size()));
+            lower.add(index.computeIfAbsent(low, k -> index.size()));
             values.add(new double[] {perCm, sigmaPerCm});
             names.add(lineName);
             return this;
+        }
+
+        private static String normalise(String label) {
+            return WHITE_SPACE.matcher(label.strip()).replaceAll(" ");
         }
 
         /** @return the problem */

@@ -3,10 +3,13 @@ package org.ritzwerk.engine.ritz;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
+import org.apache.commons.math4.legacy.linear.EigenDecomposition;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LevelList;
@@ -90,13 +93,27 @@ public final class RitzLevels {
     }
 
     /**
-     * @param cm2 the covariance of the level energies in cm^-2, n by n in this set's order; symmetric,
-     *            finite, with a non-negative diagonal
-     * @return these levels with that covariance; the standard uncertainties become the square
-     *         roots of its diagonal
-     * @throws RitzException ({@link RitzException#BAD_COVARIANCE}) naming what is wrong
+     * Replaces the levels' uncertainties by a covariance of their energies.
+     *
+     * <p>A covariance matrix must be symmetric and positive semidefinite (common practice: every
+     * variance of a combination {@code a^T V a}, such as a line's {@code V_uu + V_ll - 2 V_ul}, is then
+     * not negative). Checked within rounding, in this order, the first failure refused: the shape;
+     * every entry finite; symmetry, {@code |V_ij - V_ji| <= 1e-12 max(|V_ij|, |V_ji|)}; a diagonal not
+     * below 0; every pair within the Cauchy-Schwarz bound, {@code |V_ij| <= sqrt(V_ii V_jj) + tol};
+     * then every eigenvalue of the matrix at or above {@code -tol}, with {@code tol = 1e-10 n max_i V_ii}
+     * (n levels; the eigenvalues of a symmetric matrix are computed to about machine precision times
+     * its norm, which is at most {@code n max_i V_ii}). A failure there names the first level whose row
+     * makes the matrix indefinite (the smallest leading block of levels that is not semidefinite).
+     * Eigenvalues by Apache Commons Math's {@code EigenDecomposition} of the symmetrised matrix.
+     * The diagonal need not agree with the uncertainties given before: it replaces them.
+     *
+     * @param cm2 the covariance of the level energies in cm^-2, n by n in this set's order
+     * @return these levels with that covariance (a copy); the standard uncertainties become the
+     *         square roots of its diagonal
+     * @throws RitzException ({@link RitzException#BAD_COVARIANCE}) naming the levels or entry at fault
      */
     public RitzLevels withCovariance(double[][] cm2) {
+        Objects.requireNonNull(cm2, "cm2");
         int n = size();
         if (cm2.length != n) {
             throw new RitzException(RitzException.BAD_COVARIANCE, "the covariance has " + cm2.length
@@ -104,29 +121,79 @@ public final class RitzLevels {
         }
         double[][] copy = new double[n][];
         for (int i = 0; i < n; i++) {
-            if (cm2[i].length != n) {
+            if (cm2[i] == null || cm2[i].length != n) {
                 throw new RitzException(RitzException.BAD_COVARIANCE, "covariance row " + (i + 1) + " has "
-                        + cm2[i].length + " entries for " + n + " levels");
+                        + (cm2[i] == null ? 0 : cm2[i].length) + " entries for " + n + " levels");
             }
             copy[i] = cm2[i].clone();
         }
+        double maxDiagonal = 0;
         double[] s = new double[n];
         for (int i = 0; i < n; i++) {
             if (!(copy[i][i] >= 0) || Double.isInfinite(copy[i][i])) {
                 throw new RitzException(RitzException.BAD_COVARIANCE, "covariance of level '" + label[i]
-                        + "' with itself must be finite and not negative, got " + copy[i][i]);
+                        + "' with itself (row " + (i + 1) + ") must be finite and not negative, got " + copy[i][i]);
             }
             s[i] = Math.sqrt(copy[i][i]);
+            maxDiagonal = Math.max(maxDiagonal, copy[i][i]);
             for (int j = 0; j < i; j++) {
                 double a = copy[i][j];
                 double b = copy[j][i];
-                if (!Double.isFinite(a) || Math.abs(a - b) > 1e-12 * Math.max(Math.abs(a), Math.abs(b))) {
+                if (!Double.isFinite(a) || !Double.isFinite(b)
+                        || Math.abs(a - b) > 1e-12 * Math.max(Math.abs(a), Math.abs(b))) {
                     throw new RitzException(RitzException.BAD_COVARIANCE, "covariance of levels '" + label[i]
-                            + "' and '" + label[j] + "' is not symmetric and finite: " + a + " and " + b);
+                            + "' and '" + label[j] + "' (row " + (i + 1) + ", column " + (j + 1)
+                            + ") is not symmetric and finite: " + a + " and " + b);
                 }
             }
         }
+        double tol = 1e-10 * n * maxDiagonal;
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < i; j++) {
+                double bound = s[i] * s[j];
+                if (Math.abs(copy[i][j]) > bound + tol) {
+                    throw new RitzException(RitzException.BAD_COVARIANCE, String.format(Locale.ROOT,
+                            "covariance of levels '%s' and '%s' (row %d, column %d) is %s cm-2, beyond "
+                            + "sqrt(%s * %s) = %s cm-2 that their variances allow (correlation %.6g): the matrix is "
+                            + "not positive semidefinite", label[i], label[j], i + 1, j + 1, copy[i][j], copy[i][i],
+                            copy[j][j], bound, copy[i][j] / bound));
+                }
+            }
+        }
+        if (smallestEigenvalue(copy, n) < -tol) {
+            // leading blocks: once one is indefinite, every larger one is; find the smallest
+            int lo = 1;
+            int hi = n;
+            while (lo < hi) {
+                int mid = (lo + hi) / 2;
+                if (smallestEigenvalue(copy, mid) < -tol) {
+                    hi = mid;
+                } else {
+                    lo = mid + 1;
+                }
+            }
+            throw new RitzException(RitzException.BAD_COVARIANCE, String.format(Locale.ROOT,
+                    "the covariance is not positive semidefinite: with level '%s' (row %d) the first %d levels "
+                    + "have an eigenvalue %s cm-2, below -%s cm-2 (rounding); check its covariances with the "
+                    + "levels before it", label[lo - 1], lo, lo, smallestEigenvalue(copy, lo), tol));
+        }
         return new RitzLevels(species, info, label, energy, s, designation, copy);
+    }
+
+    /** @return the smallest eigenvalue of the leading m by m block of the (symmetric within rounding) v */
+    private static double smallestEigenvalue(double[][] v, int m) {
+        double[][] block = new double[m][m];
+        for (int i = 0; i < m; i++) {
+            for (int j = 0; j < m; j++) {
+                block[i][j] = 0.5 * (v[i][j] + v[j][i]);
+            }
+        }
+        double[] eigen = new EigenDecomposition(new Array2DRowRealMatrix(block, false)).getRealEigenvalues();
+        double min = Double.POSITIVE_INFINITY;
+        for (double e : eigen) {
+            min = Math.min(min, e);
+        }
+        return min;
     }
 
     /**

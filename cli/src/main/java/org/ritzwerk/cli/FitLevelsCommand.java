@@ -1,0 +1,207 @@
+package org.ritzwerk.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.ritzwerk.engine.ritz.LevelOptimizer;
+import org.ritzwerk.engine.ritz.LevelOptimum;
+import org.ritzwerk.engine.ritz.MeasuredLines;
+import org.ritzwerk.engine.ritz.RitzException;
+import org.ritzwerk.medium.Medium;
+import org.ritzwerk.medium.MediumException;
+import org.ritzwerk.quantity.SpectralQuantity;
+import org.ritzwerk.quantity.Wavelength;
+import org.ritzwerk.refdata.MeasuredLineFiles;
+import org.ritzwerk.refdata.OutputFiles;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code ritzwerk fit-levels}: level energies optimised from measured, assigned lines. */
+@Command(name = "fit-levels",
+        mixinStandardHelpOptions = true,
+        header = "Optimise level energies from measured lines by the Ritz combination principle.",
+        description = "Reads a ritzwerk-measured-lines file (position as wavelength with its medium, wavenumber, "
+                + "frequency or energy, its uncertainty, and the labels of the upper and lower level) and fits "
+                + "the level energies by weighted least squares, one reference level held at its energy. Lines "
+                + "whose normalised residual is beyond the threshold are left out one at a time, the worst "
+                + "first, and the levels fitted again. Prints the levels with their uncertainties, then every "
+                + "line with its Ritz wavenumber and wavelength, residual against the final fit and flag "
+                + "(fitted, outlier: left out, determines-level, unresolved); in csv the sections follow one "
+                + "another, each with its header row.",
+        footer = {"", "Examples:",
+            "  ritzwerk fit-levels lines.csv --reference \"1s2s 3S1\" --reference-energy \"159855.9743 cm-1\"",
+            "  ritzwerk fit-levels lines.csv --reference \"1s2 1S0\" --medium air --format json --out fit.json"})
+final class FitLevelsCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(paramLabel = "FILE", description = "The ritzwerk-measured-lines file (.csv or .json).")
+    Path file;
+
+    @Option(names = "--reference", paramLabel = "LABEL", required = true,
+            description = "The level held at --reference-energy, e.g. the ground level.")
+    String reference;
+
+    @Option(names = "--reference-energy", paramLabel = "QUANTITY", defaultValue = "0 cm-1",
+            description = "Its energy above the ground level: a wavenumber, energy or frequency such as "
+                    + "\"159855.9743 cm-1\" or \"19.82 eV\" (default: ${DEFAULT-VALUE}).")
+    String referenceEnergy;
+
+    @Option(names = "--threshold", paramLabel = "N", defaultValue = "3",
+            description = "The normalised residual beyond which the worst line is left out (default: "
+                    + "${DEFAULT-VALUE}).")
+    double threshold;
+
+    @Option(names = "--medium", paramLabel = "MEDIUM", defaultValue = "vacuum",
+            description = "Medium of the Ritz wavelength column: vacuum or air (default: ${DEFAULT-VALUE}).")
+    String medium;
+
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
+            description = "text (aligned tables), csv or json (one object per line, with a 'kind' field). "
+                    + "Default: ${DEFAULT-VALUE}.")
+    Table.Format format;
+
+    @Option(names = "--out", paramLabel = "FILE",
+            description = "Write the result here (a temporary file renamed into place) instead of to the output.")
+    Path out;
+
+    @Override
+    public Integer call() throws IOException {
+        if (!(threshold > 0) || Double.isInfinite(threshold)) {
+            throw new OptionException("--threshold must be a finite number above 0, got " + threshold);
+        }
+        if (reference.isBlank()) {
+            throw new OptionException("--reference needs a level label");
+        }
+        Medium shown = AxisMedium.of(medium);
+        double referencePerCm = referencePerCm();
+        if (out != null) {
+            OutputFiles.check(List.of(new OutputFiles.Named("--out", out)),
+                    List.of(new OutputFiles.Named("FILE", file)));
+        }
+        MeasuredLineFiles.Contents contents = MeasuredLineFiles.read(file);
+        MeasuredLines problem = contents.problem(reference, referencePerCm);
+        boolean touched = false;
+        for (int k = 0; k < problem.size(); k++) {
+            touched |= problem.upper(k) == 0 || problem.lower(k) == 0;
+        }
+        if (!touched) {
+            throw new OptionException("--reference: no line of " + file + " has the level '" + problem.reference()
+                    + "'");
+        }
+        LevelOptimum fit;
+        try {
+            fit = LevelOptimizer.defaults().withOutlierThreshold(threshold).optimize(problem);
+        } catch (RitzException e) {
+            throw new RitzException(e.code(), file + ": " + e.getMessage());
+        }
+        if (out == null) {
+            PrintWriter writer = spec.commandLine().getOut();
+            print(fit, shown, writer);
+            writer.flush();
+        } else {
+            OutputFiles.writeText(out, w -> {
+                PrintWriter writer = new PrintWriter(w);
+                print(fit, shown, writer);
+                writer.flush();
+            });
+        }
+        return 0;
+    }
+
+    /** @return --reference-energy in cm^-1, refusing wavelengths and values below 0 */
+    private double referencePerCm() {
+        SpectralQuantity q = AxisMedium.spectral("--reference-energy", referenceEnergy);
+        if (q instanceof Wavelength) {
+            throw new OptionException("--reference-energy is an energy above the ground level: give a wavenumber, "
+                    + "energy or frequency, not a wavelength ('" + referenceEnergy + "')");
+        }
+        return q.toWavenumber().inPerCentimetre();
+    }
+
+    private void print(LevelOptimum fit, Medium shown, PrintWriter writer) {
+        MeasuredLines problem = fit.problem();
+        boolean text = format == Table.Format.text;
+        int lines = problem.size();
+        if (text) {
+            writer.printf(Locale.ROOT, "%d levels from %d of %d lines (%d left out); chi2 = %.4g for %d degrees of "
+                    + "freedom; '%s' held at %.6f cm-1%n%n", fit.levelLabels().size(), lines - fit.leftOut().size(),
+                    lines, fit.leftOut().size(), fit.chiSquare(), fit.degreesOfFreedom(), problem.reference(),
+                    problem.referencePerCm());
+        } else {
+            Table summary = new Table(List.of(Table.Column.text("kind", "kind"),
+                    Table.Column.number("levels", "levels", "%d"), Table.Column.number("lines", "lines", "%d"),
+                    Table.Column.number("left_out", "left out", "%d"),
+                    Table.Column.number("chi_square", "chi2", "%.6g"),
+                    Table.Column.number("degrees_of_freedom", "dof", "%d"), Table.Column.text("reference", "reference"),
+                    Table.Column.number("reference_per_cm", "reference cm-1", "%.6f"),
+                    Table.Column.number("threshold", "threshold", "%.6g")), writer, format);
+            summary.add("fit", fit.levelLabels().size(), lines, fit.leftOut().size(), fit.chiSquare(),
+                    fit.degreesOfFreedom(), problem.reference(), problem.referencePerCm(), fit.outlierThreshold());
+            summary.finish();
+        }
+        Table levels = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("level", "level"),
+                Table.Column.number("energy_per_cm", "energy cm-1", "%.6f"),
+                Table.Column.number("uncertainty_per_cm", "u cm-1", "%.2g")), writer, format);
+        for (int i = 0; i < fit.levelLabels().size(); i++) {
+            levels.add("level", fit.levelLabels().get(i), fit.energyPerCm(i), fit.uncertaintyPerCm(i));
+        }
+        levels.finish();
+        section(writer, "lines (residual = measured - Ritz, against the levels above; wavelengths in "
+                + medium + ", none for air outside its model's range)");
+        String nm = medium + " nm";
+        Table table = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("where", "where"),
+                Table.Column.text("upper", "upper"), Table.Column.text("lower", "lower"),
+                Table.Column.number("measured_per_cm", "measured cm-1", "%.6f"),
+                Table.Column.number("uncertainty_per_cm", "u cm-1", "%.2g"),
+                Table.Column.number("ritz_per_cm", "Ritz cm-1", "%.6f"),
+                Table.Column.number("ritz_uncertainty_per_cm", "u Ritz cm-1", "%.2g"),
+                Table.Column.number("ritz_nm", "Ritz " + nm, "%.7f"),
+                Table.Column.number("ritz_uncertainty_nm", "u Ritz nm", "%.2g"),
+                Table.Column.number("residual_per_cm", "residual cm-1", "%.3g"),
+                Table.Column.number("normalised_residual", "res/sigma", "%.2f"),
+                Table.Column.text("flag", "flag"), Table.Column.number("left_out", "left out", "%d"),
+                Table.Column.text("unresolved_with", "unresolved with")), writer, format);
+        for (int k = 0; k < lines; k++) {
+            double ritz = fit.ritzPerCm(k);
+            double u = fit.ritzUncertaintyPerCm(k);
+            // vacuum: lambda = 1e7 / sigma nm, u_lambda = lambda u / sigma; air: times d lambda_air / d lambda_vac
+            double vacuumNm = 1e7 / ritz;
+            Double wavelength = vacuumNm;
+            Double wavelengthU = vacuumNm * u / ritz;
+            if (!shown.equals(Medium.vacuum())) {
+                try {
+                    wavelength = shown.fromVacuum(vacuumNm * 1e-9) * 1e9;
+                    wavelengthU = wavelengthU * shown.slopeFromVacuum(vacuumNm * 1e-9);
+                } catch (MediumException e) {
+                    wavelength = null;          // outside the air model's range: no air wavelength
+                    wavelengthU = null;
+                }
+            }
+            int order = fit.leftOut().indexOf(k);
+            table.add("line", problem.name(k), problem.levels().get(problem.upper(k)),
+                    problem.levels().get(problem.lower(k)), problem.wavenumberPerCm(k), problem.uncertaintyPerCm(k),
+                    ritz, u, wavelength, wavelengthU, fit.residualPerCm(k),
+                    fit.standardisedResidual(k).isPresent() ? fit.standardisedResidual(k).getAsDouble() : null,
+                    fit.flag(k).name().toLowerCase(Locale.ROOT).replace('_', '-'), order < 0 ? null : order + 1,
+                    fit.unresolvedWith(k).isPresent() ? problem.name(fit.unresolvedWith(k).getAsInt()) : null);
+        }
+        table.finish();
+    }
+
+    private void section(PrintWriter writer, String title) {
+        if (format == Table.Format.text) {
+            writer.println();
+            writer.println(title);
+        } else if (format == Table.Format.csv) {
+            writer.println();
+        }
+    }
+}
