@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.ritz;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -206,6 +207,124 @@ class SeriesFitterTest {
         double slope = (fitted(energy, sigma, LIMIT + 1e-4).predict(0, 6).energyPerCm() - base) / 1e-4;
         variance += slope * slope * 1e-6;
         assertEquals(Math.sqrt(variance), u, 1e-3 * u);
+    }
+
+    /**
+     * A seeded synthetic series (n = 20, 22, ..., 40, u = 0.002 cm^-1) with one member moved by +5 cm^-1
+     * (2500 of its uncertainties): the fit says it is improbable, gives the chance probability and the
+     * scale factor, and flags the moved member; the same series unmoved gives no note.
+     */
+    @Test
+    void anImprobableFitIsSaidAndTheWrongMemberFlagged() {
+        List<Double> truth = List.of(3.269, -0.3);
+        RydbergSeries.Builder clean = RydbergSeries.builder("nS");
+        RydbergSeries.Builder moved = RydbergSeries.builder("nS");
+        Random r = new Random(30);
+        for (int n = 20; n <= 40; n += 2) {
+            double e = AlkaliAtom.rydbergRitzEnergy(LIMIT, R, truth, n) + 0.002 * r.nextGaussian();
+            clean.add(n, e, 0.002, "s.csv:" + n);
+            moved.add(n, e + (n == 30 ? 5 : 0), 0.002, "s.csv:" + n);
+        }
+        SeriesFit good = SeriesFitter.defaults().fit(R, List.of(clean.build()));
+        // seeded noise at its stated size: chi2 near its degrees of freedom, no flag, no note
+        assertFalse(good.isImprobable(), good.toString());
+        assertTrue(good.chiSquareProbability().orElseThrow() > 1e-3, good.toString());
+        assertTrue(good.notes().isEmpty(), good.notes().toString());
+        for (int i = 0; i < good.series().get(0).size(); i++) {
+            assertFalse(good.isOutlier(0, i), "member " + i);
+        }
+        SeriesFit bad = SeriesFitter.defaults().fit(R, List.of(moved.build()));
+        assertTrue(bad.isImprobable(), bad.toString());
+        assertTrue(bad.chiSquareProbability().orElseThrow() < 1e-3);
+        // the scale factor is sqrt(chi2 / dof) (its definition) where above 1
+        assertEquals(Math.sqrt(bad.chiSquare() / bad.degreesOfFreedom()), bad.uncertaintyScale(), 1e-12);
+        assertTrue(bad.isOutlier(0, 5), "the moved member n = 30");
+        assertEquals(bad.residualPerCm(0, 5) / 0.002, bad.normalisedResidual(0, 5), 1e-9);
+        String notes = String.join("\n", bad.notes());
+        assertTrue(notes.contains("the fit is improbable") && notes.contains("stated uncertainties assume the model"),
+                notes);
+        // the moved member is named first (the largest normalised residual)
+        assertTrue(notes.contains("the largest first: nS n = 30 (s.csv:30, residual/u = "), notes);
+        assertTrue(notes.contains("chosen by the information criterion from an improbable fit"), notes);
+    }
+
+    /**
+     * The chi-square probability is the chi-square distribution's upper tail: for 2 degrees of
+     * freedom it is exp(-chi2 / 2) (closed form); without degrees of freedom there is none, and the
+     * scale factor is 1.
+     */
+    @Test
+    void theChiSquareProbabilityIsTheUpperTail() {
+        SeriesFit fit = SeriesFitter.defaults().withTerms(2).fit(R, List.of(synthetic("S", new Random(11),
+                List.of(0.2965, 0.035), 4, 8, 0.02)));
+        assertEquals(2, fit.degreesOfFreedom());
+        assertEquals(Math.exp(-fit.chiSquare() / 2), fit.chiSquareProbability().orElseThrow(), 1e-12);
+        assertEquals(fit.chiSquare() / 2, fit.reducedChiSquare().orElseThrow(), 1e-15);
+        assertEquals(Math.max(1, Math.sqrt(fit.chiSquare() / 2)), fit.uncertaintyScale(), 1e-15);
+        RydbergSeries.Builder b = RydbergSeries.builder("3S");
+        for (int n = 2; n <= 4; n++) {
+            b.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT, R, List.of(0.2966, 0.038, 0.008), n), 5e-5);
+        }
+        SeriesFit exact = SeriesFitter.defaults().withTerms(3).withLimit(LIMIT, 1e-3).fit(R, List.of(b.build()));
+        assertTrue(exact.chiSquareProbability().isEmpty() && exact.reducedChiSquare().isEmpty());
+        assertFalse(exact.isImprobable());
+        assertEquals(1, exact.uncertaintyScale());
+    }
+
+    /**
+     * Predictions of several n over every series: where one series has no level the others are still
+     * predicted and that one says why; below the lowest member the prediction carries a note.
+     */
+    @Test
+    void predictionsOfSeveralNKeepTheSeriesThatHaveTheMember() {
+        RydbergSeries s = synthetic("nS", new Random(7), List.of(3.1311807, 0.1787), 20, 40, 1e-3);
+        RydbergSeries d = synthetic("nD", new Random(8), List.of(1.3464622, -0.594), 20, 40, 1e-3);
+        SeriesFit fit = SeriesFitter.defaults().withTerms(2, 2).fit(R, List.of(s, d));
+        List<SeriesFit.Prediction> p = fit.predictions(3, 10, 60);
+        assertEquals(6, p.size());
+        // nS at n = 3: 3 - 3.13 < 0, no level (the formula's n* = n - delta must be positive)
+        assertTrue(p.get(0).member().isEmpty());
+        assertTrue(p.get(0).note().orElseThrow().startsWith("series nS has no member at n = 3"), p.get(0).toString());
+        assertTrue(p.get(1).note().orElseThrow().contains("below the lowest member of nS (n = 20)"));
+        assertEquals(fit.predict(0, 10), p.get(1).member().orElseThrow());
+        assertTrue(p.get(2).note().isEmpty() && p.get(2).member().isPresent());
+        // nD at n = 3: 3 - 1.35 > 0, predicted (extrapolated downwards, with the note)
+        assertEquals(fit.predict(1, 3), p.get(3).member().orElseThrow());
+        assertTrue(p.get(3).note().orElseThrow().contains("extrapolated downwards"));
+        assertThrows(IllegalArgumentException.class, () -> fit.predictions(0));
+    }
+
+    /**
+     * The measured defect's uncertainty is the derivative of n - sqrt(R_M / (L - E)) in E times u(E)
+     * (closed form, checked by a central difference); the fitted defect at a real n agrees with the
+     * prediction's at integer n.
+     */
+    @Test
+    void theMeasuredDefectCarriesTheLevelsUncertainty() {
+        RydbergSeries s = synthetic("nS", new Random(9), List.of(3.1311807, 0.1787), 20, 40, 1e-3);
+        SeriesFit fit = SeriesFitter.defaults().withTerms(2).fit(R, List.of(s));
+        double limit = fit.limitPerCm();
+        for (int i = 0; i < s.size(); i++) {
+            double e = s.energyPerCm(i);
+            double h = 1e-3;
+            double slope = (Math.sqrt(R / (limit - e - h)) - Math.sqrt(R / (limit - e + h))) / (2 * h);
+            assertEquals(Math.abs(slope) * 1e-3, fit.measuredDefectUncertainty(0, i).orElseThrow(),
+                    1e-6 * Math.abs(slope) * 1e-3);
+            assertEquals(fit.predict(0, s.n(i)).quantumDefect(), fit.fittedDefect(0, s.n(i)), 1e-13);
+        }
+        assertThrows(IllegalArgumentException.class, () -> fit.fittedDefect(0, 3.0));
+        // a member above the fitted limit has no defect, and the fit says so
+        RydbergSeries.Builder b = RydbergSeries.builder("nS");
+        for (int i = 0; i < s.size(); i++) {
+            b.add(s.n(i), s.energyPerCm(i), s.uncertaintyPerCm(i), "s.csv:" + s.n(i));
+        }
+        b.add(90, LIMIT + 8, 1e-3, "s.csv:90");
+        SeriesFit above = SeriesFitter.defaults().withTerms(2).fit(R, List.of(b.build()));
+        int last = s.size();
+        assertTrue(above.limitPerCm() < LIMIT + 8, above.toString());
+        assertTrue(above.measuredDefectUncertainty(0, last).isEmpty());
+        assertTrue(String.join("\n", above.notes()).contains("at or above the fitted limit"), above.notes().toString());
+        assertTrue(above.isOutlier(0, last) && above.isImprobable(), above.toString());
     }
 
     private static SeriesFit fitted(double[] energy, double[] sigma, double limit) {
