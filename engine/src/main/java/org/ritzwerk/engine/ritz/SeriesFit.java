@@ -38,11 +38,24 @@ public final class SeriesFit {
     /**
      * One model the fitter tried.
      *
-     * @param terms     the number of defect terms of each series
-     * @param chiSquare its chi^2
-     * @param bic       its Bayesian information criterion {@code chi^2 + p ln N}
+     * @param terms                 the number of defect terms of each series
+     * @param chiSquare             its chi^2
+     * @param bic                   its Bayesian information criterion {@code chi^2 + p ln N}
+     * @param limitPerCm            its series limit, cm^-1
+     * @param limitUncertaintyPerCm that limit's standard uncertainty (stated, unscaled), cm^-1
      */
-    public record Candidate(List<Integer> terms, double chiSquare, double bic) {
+    public record Candidate(List<Integer> terms, double chiSquare, double bic, double limitPerCm,
+            double limitUncertaintyPerCm) {
+    }
+
+    /**
+     * The series limit averaged over the models tried ({@link #modelAveragedLimit()}).
+     *
+     * @param limitPerCm       the averaged limit, cm^-1
+     * @param uncertaintyPerCm its standard uncertainty, with the spread between the models, cm^-1
+     * @param weights          each candidate's weight, in the order of {@link #candidates()}, summing to 1
+     */
+    public record ModelAverage(double limitPerCm, double uncertaintyPerCm, List<Double> weights) {
     }
 
     /**
@@ -310,6 +323,46 @@ public final class SeriesFit {
     /** @return every model tried, in order, the chosen one among them */
     public List<Candidate> candidates() {
         return candidates;
+    }
+
+    /**
+     * The limit averaged over the models tried, with BIC weights
+     * {@code w_k = exp(-(BIC_k - BIC_min) / 2) / sum}, the average {@code L = sum w_k L_k} and the
+     * unconditional standard uncertainty {@code u = sum w_k sqrt(u_k^2 + (L_k - L)^2)} (S. T. Buckland,
+     * K. P. Burnham and N. H. Augustin, Biometrics 53, 603 (1997), eq. 9; K. P. Burnham and D. R.
+     * Anderson, Model Selection and Multimodel Inference, 2nd ed. (2002), eq. 4.9; both from memory).
+     * It carries the uncertainty of the choice of terms, which {@link #limitUncertaintyPerCm()} (the
+     * chosen model's alone) leaves out: see {@link SeriesFitter} for the coverage of both on seeded
+     * series. The models are those the stepwise search tried, not every combination of terms; with the
+     * terms fixed there is one, and the average is the fit's own limit.
+     *
+     * @return the averaged limit, its uncertainty and the weights
+     */
+    public ModelAverage modelAveragedLimit() {
+        double lowest = Double.POSITIVE_INFINITY;
+        for (Candidate c : candidates) {
+            lowest = Math.min(lowest, c.bic());
+        }
+        double[] w = new double[candidates.size()];
+        double sum = 0;
+        for (int k = 0; k < w.length; k++) {
+            w[k] = Math.exp(-(candidates.get(k).bic() - lowest) / 2);
+            sum += w[k];
+        }
+        double mean = 0;
+        List<Double> weights = new ArrayList<>();
+        for (int k = 0; k < w.length; k++) {
+            w[k] /= sum;
+            weights.add(w[k]);
+            mean += w[k] * candidates.get(k).limitPerCm();
+        }
+        double u = 0;
+        for (int k = 0; k < w.length; k++) {
+            Candidate c = candidates.get(k);
+            double spread = c.limitPerCm() - mean;
+            u += w[k] * Math.sqrt(c.limitUncertaintyPerCm() * c.limitUncertaintyPerCm() + spread * spread);
+        }
+        return new ModelAverage(mean, u, List.copyOf(weights));
     }
 
     /**
