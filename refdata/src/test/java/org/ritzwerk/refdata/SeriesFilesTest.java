@@ -22,17 +22,18 @@ class SeriesFilesTest {
     void anEmptySeriesNameIsRefusedNotDropped() {
         String text = HEADER + "nS,20,45540.23,0.002\nnS,22,45619.45,0.002\n,45,45900,0.002\n  ,46,45901,0.002\n";
         DataFileException e = assertThrows(DataFileException.class, () -> SeriesFiles.read(text, "blank.csv"));
-        assertEquals(List.of("7:1 data.missing-value", "8:1 data.missing-value"),
-                e.problems().stream().map(p -> p.line() + ":" + p.column() + " " + p.code()).collect(Collectors.toList()));
+        assertEquals(List.of("7:1 data.missing-value", "8:1 data.missing-value"), e.problems().stream()
+                .map(p -> p.line() + ":" + p.column() + " " + p.code()).collect(Collectors.toList()));
         assertTrue(e.getMessage().contains("blank.csv:7:1: column series: series needs a name"), e.getMessage());
     }
 
     /** The same in JSON: a member without a series name, or with an empty one, is refused. */
     @Test
     void anEmptySeriesNameInJsonIsRefused() {
-        String json = "{\"format\": \"ritzwerk-series\", \"formatVersion\": 1, \"species\": \"Sr-88 I\", \"energyUnit\": "
-                + "\"cm-1\", \"members\": [\n{\"series\": \"nS\", \"n\": 20, \"energy\": 45540.23, \"uncertainty\": "
-                + "0.002},\n{\"series\": \"\", \"n\": 22, \"energy\": 45619.45, \"uncertainty\": 0.002},\n"
+        String json = "{\"format\": \"ritzwerk-series\", \"formatVersion\": 1, \"species\": \"Sr-88 I\", "
+                + "\"energyUnit\": \"cm-1\", \"members\": [\n"
+                + "{\"series\": \"nS\", \"n\": 20, \"energy\": 45540.23, \"uncertainty\": 0.002},\n"
+                + "{\"series\": \"\", \"n\": 22, \"energy\": 45619.45, \"uncertainty\": 0.002},\n"
                 + "{\"n\": 24, \"energy\": 45676.88, \"uncertainty\": 0.002}]}";
         DataFileException e = assertThrows(DataFileException.class, () -> SeriesFiles.read(json, "blank.json"));
         assertEquals(List.of("3 data.missing-value", "4 data.missing-value"),

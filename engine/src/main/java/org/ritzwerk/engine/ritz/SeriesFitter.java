@@ -36,8 +36,9 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
  *
  * <p><b>Coverage after the choice.</b> The chosen model's uncertainties ignore that the data chose
  * it: on seeded synthetic series (two series, n = 20-60, true model two terms each) the limit's rms
- * pull is 1.02-1.09 over 600 trials (|pull| &lt; 1 in 64-66 %, against 68.3 % for a normal), 1.24-1.56
- * in the trials where a spurious term was added, 1.02 with the terms fixed. The result also gives the
+ * pull is 1.02-1.09 over 600 trials for each of three seeds (|pull| &lt; 1 in 64-66 %, against 68.3 % for
+ * a normal; 1.24 and 1.56 in one seed's trials where a spurious term was added), 1.02 with the terms
+ * fixed. The result also gives the
  * limit averaged over the models tried with BIC weights ({@link SeriesFit#modelAveragedLimit()},
  * Buckland, Burnham &amp; Augustin 1997), whose uncertainty includes the spread between the models:
  * rms pull 0.90-0.96 on the same trials (|pull| &lt; 1 in 72-73 %), slightly conservative.
@@ -47,7 +48,8 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
  * beside the members; it counts as a datum in the information criterion and the degrees of freedom.
  *
  * <p><b>Uncertainties.</b> The covariance is {@code (J^T W J)^-1} at the optimum, from the members'
- * stated uncertainties (not scaled by chi^2 / dof; the result gives both so the caller can).
+ * stated uncertainties (not scaled by chi^2 / dof; the result gives the chance probability of chi^2, the
+ * scale factor and the members beyond 3 sigma, and says when the fit is improbable: {@link SeriesFit}).
  * Predicted members carry {@code u(E) = sqrt(g^T C g)}, g the gradient of E(n) in the parameters.
  * With the number of terms fixed ({@link #withTerms}), as many data as parameters are accepted: the
  * fit then interpolates (chi^2 = 0, no degrees of freedom), and the covariance carries the data's
