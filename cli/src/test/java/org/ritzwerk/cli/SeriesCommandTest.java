@@ -284,6 +284,9 @@ class SeriesCommandTest {
         int line = Files.readAllLines(bad).indexOf(Files.readAllLines(bad).stream()
                 .filter(l -> l.startsWith("nS1/2,30,")).findFirst().orElseThrow()) + 1;
         assertTrue(text.err().contains("the largest first: nS1/2 n = 30 (" + bad + ":" + line), text.err());
+        // refitted without that member alone, the fit is consistent again (a deletion diagnostic)
+        assertTrue(text.err().contains("refitted without nS1/2 n = 30 (" + bad + ":" + line + ") alone, the fit is "
+                + "consistent"), text.err());
 
         CliTest.Run run = CliTest.run("series", bad.toString(), "--format", "json");
         JsonMapper json = JsonMapper.builder().build();

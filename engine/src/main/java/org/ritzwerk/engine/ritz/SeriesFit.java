@@ -25,8 +25,9 @@ import org.apache.commons.numbers.gamma.RegularizedGamma;
  * would grow if every member's uncertainty were understated alike (it does not rescue a wrong
  * member or a wrong model); and every member whose normalised residual {@code (E - E_fit) / u}
  * exceeds {@value #OUTLIER_SIGMA} in size ({@link #isOutlier}, common practice: 3 standard
- * uncertainties, a chance of 0.27 % per member for a normal error). {@link #notes()} puts these
- * into sentences for a reader. Immutable and thread-safe (accessors return copies).
+ * uncertainties, a chance of 0.27 % per member for a normal error). An improbable fit also carries
+ * the best refit without one member ({@link #bestDeletion()}). {@link #notes()} puts these into
+ * sentences for a reader. Immutable and thread-safe (accessors return copies).
  */
 public final class SeriesFit {
 
@@ -83,6 +84,25 @@ public final class SeriesFit {
     public record Prediction(int series, int n, Optional<Member> member, Optional<String> note) {
     }
 
+    /**
+     * The refit without one member ({@link #bestDeletion()}): the member left out and what the fit
+     * then gives.
+     *
+     * @param series                the member's series index
+     * @param index                 its index in that series
+     * @param n                     its n
+     * @param where                 where it was read
+     * @param chiSquare             the refit's chi^2
+     * @param degreesOfFreedom      the refit's degrees of freedom
+     * @param probability           the refit's chi-square probability (1 without degrees of freedom)
+     * @param limitPerCm            the refit's limit, cm^-1
+     * @param limitUncertaintyPerCm its standard uncertainty, cm^-1
+     * @param terms                 the refit's terms per series
+     */
+    public record Deletion(int series, int index, int n, String where, double chiSquare, int degreesOfFreedom,
+            double probability, double limitPerCm, double limitUncertaintyPerCm, List<Integer> terms) {
+    }
+
     private final SeriesFitter.Model model;
     private final int[] terms;
     private final double[] parameters;
@@ -90,9 +110,10 @@ public final class SeriesFit {
     private final double chiSquare;
     private final int points;
     private final List<Candidate> candidates;
+    private final Deletion deletion;
 
     SeriesFit(SeriesFitter.Model model, int[] terms, double[] parameters, double[][] covariance, double chiSquare,
-            int points, List<Candidate> candidates) {
+            int points, List<Candidate> candidates, Deletion deletion) {
         this.model = model;
         this.terms = terms;
         this.parameters = parameters;
@@ -100,6 +121,25 @@ public final class SeriesFit {
         this.chiSquare = chiSquare;
         this.points = points;
         this.candidates = List.copyOf(candidates);
+        this.deletion = deletion;
+    }
+
+    /** @return this fit with the deletion diagnostic (null: none) */
+    SeriesFit withDeletion(Deletion d) {
+        return new SeriesFit(model, terms, parameters, covariance, chiSquare, points, candidates, d);
+    }
+
+    /**
+     * For an improbable fit only: the refit (same settings, terms chosen again where the criterion
+     * chooses them) without the one member whose removal gives the most probable chi^2. When that
+     * refit is consistent, that member alone is the likeliest wrong one; when it is still improbable,
+     * more than one member, or the model, is wrong.
+     *
+     * @return the best refit without one member, or empty for a fit that is not improbable (or where
+     *         no refit was possible)
+     */
+    public Optional<Deletion> bestDeletion() {
+        return Optional.ofNullable(deletion);
     }
 
     /** @return the series fitted, in the order given */
@@ -284,6 +324,16 @@ public final class SeriesFit {
                         + "from an improbable fit: extra terms may only absorb a wrong member; fix them (--terms, "
                         + "SeriesFitter.withTerms) once the data are mended");
             }
+        }
+        if (deletion != null) {
+            boolean consistent = deletion.probability() >= IMPROBABLE_PROBABILITY;
+            notes.add(String.format(Locale.ROOT, "refitted without %s n = %d (%s) alone, the fit is %s: chi2 = %.4g "
+                    + "for %d degrees of freedom (probability %s), limit %.6f +- %.2g cm-1, terms %s%s",
+                    model.series.get(deletion.series()).name(), deletion.n(), deletion.where(),
+                    consistent ? "consistent" : "still improbable", deletion.chiSquare(), deletion.degreesOfFreedom(),
+                    probabilityText(deletion.probability()), deletion.limitPerCm(), deletion.limitUncertaintyPerCm(),
+                    deletion.terms(), consistent ? "; that member is the likeliest wrong one"
+                            : "; no single member explains the misfit (several are wrong, or the model)"));
         }
         List<int[]> outliers = new ArrayList<>();
         List<String> above = new ArrayList<>();

@@ -131,6 +131,58 @@ public final class SeriesFitter {
      *                                  the series, or two series of one name
      */
     public SeriesFit fit(double rydbergPerCm, List<RydbergSeries> series) {
+        SeriesFit fit = fitOnce(rydbergPerCm, series);
+        return fit.isImprobable() ? fit.withDeletion(bestDeletion(rydbergPerCm, series)) : fit;
+    }
+
+    /**
+     * For an improbable fit: refits (with these settings) without each member in turn, and keeps the
+     * refit whose chi^2 probability is highest (the lowest reduced chi^2 where probabilities underflow),
+     * a deletion diagnostic (common practice: the deleted residual of one observation at a time).
+     * Members whose removal leaves too few data are skipped.
+     *
+     * @return the best refit, or null when none converged
+     */
+    private SeriesFit.Deletion bestDeletion(double rydbergPerCm, List<RydbergSeries> series) {
+        SeriesFit.Deletion best = null;
+        for (int s = 0; s < series.size(); s++) {
+            RydbergSeries one = series.get(s);
+            for (int i = 0; i < one.size(); i++) {
+                if (one.size() == 1) {
+                    continue;
+                }
+                RydbergSeries.Builder b = RydbergSeries.builder(one.name());
+                for (int k = 0; k < one.size(); k++) {
+                    if (k != i) {
+                        b.add(one.n(k), one.energyPerCm(k), one.uncertaintyPerCm(k), one.where(k));
+                    }
+                }
+                List<RydbergSeries> without = new ArrayList<>(series);
+                without.set(s, b.build());
+                SeriesFit refit;
+                try {
+                    refit = fitOnce(rydbergPerCm, without);
+                } catch (RitzException e) {
+                    continue;
+                }
+                double p = refit.chiSquareProbability().orElse(1);
+                double reduced = refit.reducedChiSquare().orElse(0);
+                if (best == null || p > best.probability() || (p == best.probability()
+                        && reduced < best.chiSquare() / Math.max(1, best.degreesOfFreedom()))) {
+                    List<Integer> terms = new ArrayList<>();
+                    for (int k = 0; k < series.size(); k++) {
+                        terms.add(refit.terms(k));
+                    }
+                    best = new SeriesFit.Deletion(s, i, one.n(i), one.where(i), refit.chiSquare(),
+                            refit.degreesOfFreedom(), p, refit.limitPerCm(), refit.limitUncertaintyPerCm(),
+                            List.copyOf(terms));
+                }
+            }
+        }
+        return best;
+    }
+
+    private SeriesFit fitOnce(double rydbergPerCm, List<RydbergSeries> series) {
         Objects.requireNonNull(series, "series");
         if (!(rydbergPerCm > 0) || Double.isInfinite(rydbergPerCm)) {
             throw new IllegalArgumentException("R_M must be finite and positive cm-1, got " + rydbergPerCm);
@@ -194,7 +246,7 @@ public final class SeriesFitter {
                 best = next;
             }
         }
-        return new SeriesFit(model, best.terms, best.parameters, best.covariance, best.chiSquare, total, tried);
+        return new SeriesFit(model, best.terms, best.parameters, best.covariance, best.chiSquare, total, tried, null);
     }
 
     private static int[] filled(int n, int value) {

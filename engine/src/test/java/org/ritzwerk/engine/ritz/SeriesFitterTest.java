@@ -300,6 +300,16 @@ class SeriesFitterTest {
         // the moved member is named first (the largest normalised residual)
         assertTrue(notes.contains("the largest first: nS n = 30 (s.csv:30, residual/u = "), notes);
         assertTrue(notes.contains("chosen by the information criterion from an improbable fit"), notes);
+        // deletion diagnostic: refitted without the moved member alone, the fit is consistent again and
+        // gives back the seeded limit; a fit that is not improbable has none
+        SeriesFit.Deletion without = bad.bestDeletion().orElseThrow();
+        assertEquals(30, without.n());
+        assertEquals("s.csv:30", without.where());
+        assertTrue(without.probability() >= 1e-3, without.toString());
+        assertEquals(LIMIT, without.limitPerCm(), 4 * without.limitUncertaintyPerCm());
+        assertEquals(bad.series().get(0).size() - 1 - 1 - without.terms().get(0), without.degreesOfFreedom());
+        assertTrue(notes.contains("refitted without nS n = 30 (s.csv:30) alone, the fit is consistent"), notes);
+        assertTrue(good.bestDeletion().isEmpty());
     }
 
     /**
