@@ -193,6 +193,151 @@ final class Plots {
         return chart;
     }
 
+    /**
+     * A series' quantum defects against n, staged as a PNG ({@link #defectChart}).
+     *
+     * @param batch the batch the PNG joins
+     * @param file  the PNG to write
+     * @param chart the chart
+     * @throws IOException when the temporary file cannot be written
+     */
+    static void writeChart(OutputFiles.Batch batch, Path file, JFreeChart chart) throws IOException {
+        batch.bytes(file, out -> ChartUtils.writeChartAsPNG(out, chart, 1200, 700));
+    }
+
+    /**
+     * A series' quantum defects against n: each member's measured defect with its standard
+     * uncertainty as an error bar (dots), flagged members apart (crosses), and the fitted delta(n) as
+     * a line. The y axis spans the unflagged members' bars and the curve ({@link #defectAxisRange});
+     * a flagged member beyond it is drawn on the edge as a triangle, and the title says how many.
+     *
+     * @param title      chart title
+     * @param n          the members' n
+     * @param delta      their measured quantum defects
+     * @param u          their standard uncertainties (0 draws no bar)
+     * @param flagged    which members the fit flags (outliers)
+     * @param curveN     n of the fitted curve's points, ascending
+     * @param curveDelta the fitted delta(n) there
+     * @return the chart
+     */
+    static JFreeChart defectChart(String title, double[] n, double[] delta, double[] u, boolean[] flagged,
+            double[] curveN, double[] curveDelta) {
+        headless();
+        double[] range = defectAxisRange(delta, u, flagged, curveDelta);
+        YIntervalSeries members = new YIntervalSeries("measured defect +- u");
+        YIntervalSeries outliers = new YIntervalSeries("flagged member (|residual/u| > 3)");
+        YIntervalSeries beyond = new YIntervalSeries("flagged, beyond the scale (on the edge)");
+        int outside = 0;
+        for (int i = 0; i < n.length; i++) {
+            double s = Double.isFinite(u[i]) ? u[i] : 0;
+            if (!flagged[i]) {
+                members.add(n[i], delta[i], delta[i] - s, delta[i] + s);
+            } else if (delta[i] >= range[0] && delta[i] <= range[1]) {
+                outliers.add(n[i], delta[i], delta[i] - s, delta[i] + s);
+            } else {
+                double edge = delta[i] < range[0] ? range[0] : range[1];
+                beyond.add(n[i], edge, edge, edge);
+                outside++;
+            }
+        }
+        YIntervalSeriesCollection points = new YIntervalSeriesCollection();
+        XYErrorRenderer renderer = new XYErrorRenderer();
+        renderer.setDrawXError(false);
+        renderer.setDefaultShapesVisible(true);
+        renderer.setDefaultLinesVisible(false);
+        Color[] colours = {new Color(0x1f, 0x4e, 0x79), new Color(0xb0, 0x3a, 0x2e), new Color(0xb0, 0x3a, 0x2e)};
+        java.awt.Shape[] shapes = {new java.awt.geom.Ellipse2D.Double(-3, -3, 6, 6),
+            ShapeUtils.createDiagonalCross(4, 0.6f), ShapeUtils.createUpTriangle(5)};
+        YIntervalSeries[] all = {members, outliers, beyond};
+        for (int k = 0; k < all.length; k++) {
+            if (all[k].getItemCount() == 0) {
+                continue;
+            }
+            int index = points.getSeriesCount();
+            points.addSeries(all[k]);
+            renderer.setSeriesPaint(index, colours[k]);
+            renderer.setSeriesShape(index, shapes[k]);
+        }
+        XYSeries fitted = new XYSeries("fitted delta(n)", false, true);
+        for (int k = 0; k < curveN.length; k++) {
+            fitted.add(curveN[k], curveDelta[k]);
+        }
+        NumberAxis xAxis = new NumberAxis("n");
+        xAxis.setAutoRangeIncludesZero(false);
+        xAxis.setStandardTickUnits(NumberAxis.createIntegerTickUnits());
+        NumberAxis yAxis = new NumberAxis("quantum defect n - n*");
+        yAxis.setAutoRangeIncludesZero(false);
+        yAxis.setRange(range[0], range[1]);
+        // plain decimals with a digit below a tenth of the span (the default turns to 3.26945E0)
+        int decimals = Math.max(2, (int) Math.ceil(-Math.log10((range[1] - range[0]) / 10)) + 1);
+        yAxis.setNumberFormatOverride(new java.text.DecimalFormat("0." + "0".repeat(decimals),
+                java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
+        XYPlot plot = new XYPlot(points, xAxis, yAxis, renderer);
+        XYLineAndShapeRenderer line = new XYLineAndShapeRenderer(true, false);
+        line.setSeriesPaint(0, new Color(0x4d, 0x4d, 0x4d));
+        line.setSeriesStroke(0, new BasicStroke(1.2f));
+        plot.setDataset(1, new XYSeriesCollection(fitted));
+        plot.setRenderer(1, line);
+        plot.setBackgroundPaint(Color.WHITE);
+        plot.setDomainGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
+        plot.setRangeGridlinePaint(new Color(0xdd, 0xdd, 0xdd));
+        String shownTitle = outside == 0 ? title : title + String.format(Locale.ROOT,
+                " (%d flagged beyond the scale, drawn on the edge)", outside);
+        JFreeChart chart = new JFreeChart(shownTitle, JFreeChart.DEFAULT_TITLE_FONT, plot, true);
+        chart.setBackgroundPaint(Color.WHITE);
+        return chart;
+    }
+
+    /** The least span of the defect axis: 1e-6, below the digits a quantum defect is published with. */
+    static final double LEAST_DEFECT_SPAN = 1e-6;
+
+    /**
+     * The y range of the defect chart: from the lowest to the highest of the unflagged members'
+     * error bars (every member's where all are flagged) and the fitted curve, widened by 8 % of that
+     * span on each side and to at least {@link #LEAST_DEFECT_SPAN}, about the middle. Non-finite
+     * values are ignored.
+     *
+     * @param delta   measured defects
+     * @param u       their uncertainties
+     * @param flagged which members are flagged
+     * @param curve   the fitted curve's values
+     * @return {lower, upper}
+     */
+    static double[] defectAxisRange(double[] delta, double[] u, boolean[] flagged, double[] curve) {
+        boolean anyClean = false;
+        for (int i = 0; i < delta.length; i++) {
+            anyClean |= !flagged[i] && Double.isFinite(delta[i]);
+        }
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (int i = 0; i < delta.length; i++) {
+            if ((anyClean && flagged[i]) || !Double.isFinite(delta[i])) {
+                continue;
+            }
+            double s = Double.isFinite(u[i]) ? Math.abs(u[i]) : 0;
+            lo = Math.min(lo, delta[i] - s);
+            hi = Math.max(hi, delta[i] + s);
+        }
+        for (double c : curve) {
+            if (Double.isFinite(c)) {
+                lo = Math.min(lo, c);
+                hi = Math.max(hi, c);
+            }
+        }
+        if (!(lo <= hi)) {
+            return new double[] {0, 1};
+        }
+        double margin = 0.08 * (hi - lo);
+        lo -= margin;
+        hi += margin;
+        if (hi - lo < LEAST_DEFECT_SPAN) {
+            double middle = (lo + hi) / 2;
+            lo = middle - LEAST_DEFECT_SPAN / 2;
+            hi = middle + LEAST_DEFECT_SPAN / 2;
+        }
+        return new double[] {lo, hi};
+    }
+
     /** The residual chart's points sorted into classes, and the ones beyond the scale into their own. */
     private static final class Classes {
         private static final String[] NAMES = {"fitted", "rejected", "saturated (not fitted)"};

@@ -29,7 +29,10 @@ import picocli.CommandLine.Spec;
                 + "series in the file share one limit. The number of defect terms of each series is chosen by "
                 + "the Bayesian information criterion (chi^2 + p ln N) unless --terms fixes it. Prints the "
                 + "limit and defects with their uncertainties, the covariance, each member's residual and the "
-                + "models tried; in csv the sections follow one another, each with its header row.",
+                + "models tried; in csv the sections follow one another, each with its header row. The fit's "
+                + "chi-square probability is given; below 0.001 the fit is called improbable and a note says the "
+                + "stated uncertainties assume the model and the data right (column u x S scales them by "
+                + "S = sqrt(chi^2/dof)). Members with |residual/u| > 3 are flagged (column flag) and named in a note.",
         footer = {"", "Examples:",
             "  ritzwerk series members.csv",
             "  ritzwerk series members.csv --terms 2 --predict 40,60 --format json",
@@ -62,11 +65,15 @@ final class SeriesCommand implements Callable<Integer> {
     List<Double> limit = new ArrayList<>();
 
     @Option(names = "--predict", paramLabel = "N[,N...]", split = ",",
-            description = "Also give these members of every series (energy, uncertainty, defect).")
+            description = "Also give these members of every series (energy, uncertainty, defect). Where a series "
+                    + "has no level at an n (n - delta(n) not positive) it says so in a note and the other series "
+                    + "are still predicted; an n below a series' lowest member is noted (extrapolated downwards).")
     List<Integer> predict = new ArrayList<>();
 
     @Option(names = "--plot", paramLabel = "FILE.png",
-            description = "Write a PNG of the measured quantum defect against n of one series (--plot-series).")
+            description = "Write a PNG of one series' quantum defects against n (--plot-series): each member's "
+                    + "defect with a bar from its energy's uncertainty, flagged members apart, and the fitted "
+                    + "delta(n); the axis spans the unflagged members and the curve.")
     Path plot;
 
     @Option(names = "--plot-series", paramLabel = "NAME",
@@ -136,25 +143,21 @@ final class SeriesCommand implements Callable<Integer> {
         } catch (RitzException e) {
             throw new RitzException(e.code(), file + ": " + e.getMessage());
         }
-        checkPredictions(fit);
+        List<SeriesFit.Prediction> predictions = fit.predictions(predict.stream().mapToInt(Integer::intValue)
+                .toArray());
+        PrintWriter err = spec.commandLine().getErr();
+        for (SeriesFit.Prediction p : predictions) {
+            p.note().ifPresent(note -> err.println("note: --predict " + p.n() + ": " + note));
+        }
+        for (String note : fit.notes()) {
+            err.println("note: " + note);
+        }
         noteKnownLimit(fit);
-        print(fit, contents);
+        err.flush();
+        print(fit, contents, predictions);
         if (plot != null) {
             try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
-                RydbergSeries one = series.get(plotted);
-                double[] x = new double[one.size()];
-                double[] y = new double[one.size()];
-                Integer[] order = new Integer[one.size()];
-                for (int i = 0; i < order.length; i++) {
-                    order[i] = i;
-                }
-                java.util.Arrays.sort(order, (a, b) -> Integer.compare(one.n(a), one.n(b)));
-                for (int k = 0; k < order.length; k++) {
-                    x[k] = one.n(order[k]);
-                    y[k] = fit.measuredDefect(plotted, order[k]);
-                }
-                Plots.lineChart(batch, plot, contents.species().notation() + " " + one.name()
-                        + ": quantum defect n - n* against n", "n", "quantum defect", x, y, List.of(), false);
+                Plots.writeChart(batch, plot, defectChart(fit, plotted, contents));
                 batch.commit();
             }
         }
@@ -162,30 +165,53 @@ final class SeriesCommand implements Callable<Integer> {
     }
 
     /**
-     * Before anything is printed: refuses a --predict n where a series has no level (no positive
-     * effective n), and notes each n below a series' lowest member, where the fitted expansion is
-     * extrapolated downwards.
+     * The defect chart of one series: members in order of n with their defects and uncertainties (a
+     * member at or above the fitted limit, which has no defect, left out and counted in the title),
+     * the fit's outliers flagged, and the fitted delta(n) over the members' n.
      */
-    private void checkPredictions(SeriesFit fit) {
-        for (int s = 0; s < fit.series().size(); s++) {
-            RydbergSeries one = fit.series().get(s);
-            int lowest = Integer.MAX_VALUE;
-            for (int i = 0; i < one.size(); i++) {
-                lowest = Math.min(lowest, one.n(i));
-            }
-            for (int n : predict) {
-                try {
-                    fit.predict(s, n);
-                } catch (IllegalArgumentException e) {
-                    throw new OptionException("--predict " + n + ": " + e.getMessage());
-                }
-                if (n < lowest) {
-                    spec.commandLine().getErr().println(String.format(java.util.Locale.ROOT, "note: --predict %d lies"
-                            + " below the lowest member of %s (n = %d): the defect expansion is extrapolated downwards"
-                            + " there, where it usually fails", n, one.name(), lowest));
-                }
+    private static org.jfree.chart.JFreeChart defectChart(SeriesFit fit, int s, SeriesFiles.Contents contents) {
+        RydbergSeries one = fit.series().get(s);
+        List<Integer> order = new ArrayList<>();
+        for (int i = 0; i < one.size(); i++) {
+            if (fit.measuredDefectUncertainty(s, i).isPresent()) {
+                order.add(i);
             }
         }
+        order.sort((a, b) -> Integer.compare(one.n(a), one.n(b)));
+        double[] x = new double[order.size()];
+        double[] y = new double[order.size()];
+        double[] u = new double[order.size()];
+        boolean[] flagged = new boolean[order.size()];
+        for (int k = 0; k < x.length; k++) {
+            int i = order.get(k);
+            x[k] = one.n(i);
+            y[k] = fit.measuredDefect(s, i);
+            u[k] = fit.measuredDefectUncertainty(s, i).getAsDouble();
+            flagged[k] = fit.isOutlier(s, i);
+        }
+        int lowest = Integer.MAX_VALUE;
+        int highest = Integer.MIN_VALUE;
+        for (int i = 0; i < one.size(); i++) {
+            lowest = Math.min(lowest, one.n(i));
+            highest = Math.max(highest, one.n(i));
+        }
+        // the fitted delta(n) over the members' n (where n lies above d0, as the formula needs)
+        double d0 = fit.defects(s)[0];
+        int points = 200;
+        List<double[]> line = new ArrayList<>();
+        for (int k = 0; k <= points; k++) {
+            double at = lowest + (highest - lowest) * (double) k / points;
+            if (at > d0) {
+                line.add(new double[] {at, fit.fittedDefect(s, at)});
+            }
+        }
+        double[] curveN = line.stream().mapToDouble(v -> v[0]).toArray();
+        double[] curve = line.stream().mapToDouble(v -> v[1]).toArray();
+        int left = one.size() - order.size();
+        String title = contents.species().notation() + " " + one.name() + ": quantum defect n - n* against n, "
+                + "measured (bars: u of the level) and fitted"
+                + (left == 0 ? "" : " (" + left + " at or above the fitted limit not drawn)");
+        return Plots.defectChart(title, x, y, u, flagged, curveN, curve);
     }
 
     /** Notes a known limit that the members put elsewhere (residual beyond 3 of its uncertainties). */
@@ -203,14 +229,14 @@ final class SeriesCommand implements Callable<Integer> {
         return String.join(",", limit.stream().map(String::valueOf).toList());
     }
 
-    private void print(SeriesFit fit, SeriesFiles.Contents contents) {
+    private void print(SeriesFit fit, SeriesFiles.Contents contents, List<SeriesFit.Prediction> predictions) {
         PrintWriter out = spec.commandLine().getOut();
         boolean text = format == Table.Format.text;
         if (text) {
             out.printf(java.util.Locale.ROOT, "%s: %d series, %d members, R_M = %.6f cm-1; chi2 = %.4g for %d degrees "
-                    + "of freedom%n%n", contents.species().notation(), fit.series().size(),
+                    + "of freedom%s%n%n", contents.species().notation(), fit.series().size(),
                     fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
-                    fit.degreesOfFreedom());
+                    fit.degreesOfFreedom(), quality(fit));
             if (!limit.isEmpty()) {
                 out.printf(java.util.Locale.ROOT, "Known limit %s +- %s cm-1 taken as a datum%n%n", limit.get(0),
                         limit.get(1));
@@ -222,24 +248,39 @@ final class SeriesCommand implements Callable<Integer> {
                     Table.Column.number("rydberg_per_cm", "R_M cm-1", "%.9g"),
                     Table.Column.number("chi_square", "chi2", "%.6g"),
                     Table.Column.number("degrees_of_freedom", "dof", "%d"),
-                    Table.Column.text("known_limit", "known limit")), out, format);
+                    Table.Column.text("known_limit", "known limit"),
+                    Table.Column.number("chi_square_probability", "P(chi2)", "%.3g"),
+                    Table.Column.text("fit_quality", "quality"),
+                    Table.Column.number("uncertainty_scale", "S", "%.4g")), out, format);
             summary.add("fit", contents.species().notation(), fit.series().size(),
                     fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
-                    fit.degreesOfFreedom(), limit.isEmpty() ? null : limit.get(0) + " +- " + limit.get(1) + " cm-1");
+                    fit.degreesOfFreedom(), limit.isEmpty() ? null : limit.get(0) + " +- " + limit.get(1) + " cm-1",
+                    fit.chiSquareProbability().isPresent() ? fit.chiSquareProbability().getAsDouble() : null,
+                    fit.chiSquareProbability().isEmpty() ? "no degrees of freedom"
+                            : fit.isImprobable() ? "improbable" : "consistent", fit.uncertaintyScale());
             summary.finish();
         }
         Table parameters = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("parameter", "parameter"),
                 Table.Column.number("value", "value", "%.11g"), Table.Column.number("uncertainty", "uncertainty", "%.3g"),
-                Table.Column.text("unit", "unit")), out, format);
+                Table.Column.number("scaled_uncertainty", "u x S", "%.3g"), Table.Column.text("unit", "unit")), out,
+                format);
         List<String> names = fit.parameterNames();
-        parameters.add("parameter", "limit", fit.limitPerCm(), fit.limitUncertaintyPerCm(), "cm-1");
+        double scale = fit.uncertaintyScale();
+        parameters.add("parameter", "limit", fit.limitPerCm(), fit.limitUncertaintyPerCm(),
+                scale * fit.limitUncertaintyPerCm(), "cm-1");
         int at = 1;
         for (int s = 0; s < fit.series().size(); s++) {
             double[] d = fit.defects(s);
             double[] u = fit.defectUncertainties(s);
             for (int k = 0; k < d.length; k++) {
-                parameters.add("parameter", names.get(at++), d[k], u[k], "");
+                parameters.add("parameter", names.get(at++), d[k], u[k], scale * u[k], "");
             }
+        }
+        if (fit.candidates().size() > 1) {
+            // the limit over the models tried, BIC-weighted, with the uncertainty of the choice of terms
+            SeriesFit.ModelAverage average = fit.modelAveragedLimit();
+            parameters.add("parameter", "limit, model-averaged", average.limitPerCm(), average.uncertaintyPerCm(),
+                    null, "cm-1");
         }
         parameters.finish();
         section(text, "covariance (limit in cm-1, defects dimensionless)");
@@ -260,13 +301,18 @@ final class SeriesCommand implements Callable<Integer> {
                 Table.Column.number("fitted_per_cm", "fitted cm-1", "%.6f"),
                 Table.Column.number("residual_per_cm", "residual cm-1", "%.3g"),
                 Table.Column.number("normalised_residual", "residual/u", "%.2f"),
-                Table.Column.number("quantum_defect", "defect", "%.6f"), Table.Column.text("where", "where")), out, format);
+                Table.Column.number("quantum_defect", "defect", "%.6f"), Table.Column.text("flag", "flag"),
+                Table.Column.text("where", "where")), out, format);
         for (int s = 0; s < fit.series().size(); s++) {
             RydbergSeries one = fit.series().get(s);
             for (int i = 0; i < one.size(); i++) {
                 double r = fit.residualPerCm(s, i);
+                boolean above = fit.measuredDefectUncertainty(s, i).isEmpty();
+                String flag = fit.isOutlier(s, i) ? (above ? "outlier, above limit" : "outlier")
+                        : above ? "above limit" : null;
                 members.add("member", one.name(), one.n(i), one.energyPerCm(i), one.uncertaintyPerCm(i),
-                        one.energyPerCm(i) - r, r, r / one.uncertaintyPerCm(i), fit.measuredDefect(s, i), one.where(i));
+                        one.energyPerCm(i) - r, r, fit.normalisedResidual(s, i),
+                        above ? null : fit.measuredDefect(s, i), flag, one.where(i));
             }
         }
         members.finish();
@@ -275,24 +321,47 @@ final class SeriesCommand implements Callable<Integer> {
             Table predicted = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("series", "series"),
                     Table.Column.text("n", "n"), Table.Column.number("energy_per_cm", "energy cm-1", "%.6f"),
                     Table.Column.number("uncertainty_per_cm", "u cm-1", "%.3g"),
-                    Table.Column.number("quantum_defect", "defect", "%.6f")), out, format);
-            for (int s = 0; s < fit.series().size(); s++) {
-                for (int n : predict) {
-                    SeriesFit.Member m = fit.predict(s, n);
-                    predicted.add("prediction", fit.series().get(s).name(), n, m.energyPerCm(), m.uncertaintyPerCm(),
-                            m.quantumDefect());
+                    Table.Column.number("scaled_uncertainty_per_cm", "u x S cm-1", "%.3g"),
+                    Table.Column.number("quantum_defect", "defect", "%.6f"), Table.Column.text("note", "note")),
+                    out, format);
+            for (SeriesFit.Prediction p : predictions) {
+                String name = fit.series().get(p.series()).name();
+                if (p.member().isEmpty()) {
+                    predicted.add("prediction", name, p.n(), null, null, null, null, "no member (see note)");
+                    continue;
                 }
+                SeriesFit.Member m = p.member().get();
+                predicted.add("prediction", name, p.n(), m.energyPerCm(), m.uncertaintyPerCm(),
+                        scale * m.uncertaintyPerCm(), m.quantumDefect(),
+                        p.note().isPresent() ? "below the measured members" : null);
             }
             predicted.finish();
         }
-        section(text, "models tried (BIC = chi2 + p ln N; the lowest is used)");
+        section(text, "models tried (BIC = chi2 + p ln N; the lowest is used; weight exp(-BIC/2) for the average)");
         Table candidates = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("terms", "terms"),
-                Table.Column.number("chi2", "chi2", "%.4g"), Table.Column.number("bic", "BIC", "%.4g")), out, format);
-        for (SeriesFit.Candidate candidate : fit.candidates()) {
-            candidates.add("model", candidate.terms().toString().replace(" ", ""), candidate.chiSquare(), candidate.bic());
+                Table.Column.number("chi2", "chi2", "%.4g"), Table.Column.number("bic", "BIC", "%.4g"),
+                Table.Column.number("limit_per_cm", "limit cm-1", "%.6f"),
+                Table.Column.number("limit_uncertainty_per_cm", "u cm-1", "%.3g"),
+                Table.Column.number("weight", "weight", "%.3g")), out, format);
+        List<Double> weights = fit.modelAveragedLimit().weights();
+        for (int k = 0; k < fit.candidates().size(); k++) {
+            SeriesFit.Candidate candidate = fit.candidates().get(k);
+            candidates.add("model", candidate.terms().toString().replace(" ", ""), candidate.chiSquare(),
+                    candidate.bic(), candidate.limitPerCm(), candidate.limitUncertaintyPerCm(), weights.get(k));
         }
         candidates.finish();
         out.flush();
+    }
+
+    /** @return the text summary's account of the fit's chi-square probability */
+    private static String quality(SeriesFit fit) {
+        if (fit.chiSquareProbability().isEmpty()) {
+            return "";
+        }
+        double p = fit.chiSquareProbability().getAsDouble();
+        return fit.isImprobable() ? String.format(java.util.Locale.ROOT, " (probability %s: IMPROBABLE, see the "
+                + "notes; u x S scales the uncertainties by S = %.4g)", SeriesFit.probabilityText(p),
+                fit.uncertaintyScale()) : String.format(java.util.Locale.ROOT, " (probability %.2g)", p);
     }
 
     private void section(boolean text, String title) {

@@ -138,4 +138,41 @@ class PlotsTest {
         assertEquals(scale, plot.getRangeAxis().getUpperBound(), 1e-9 * scale);
         assertTrue(plot.getRangeAxis().getUpperBound() < widestBlend, "the blend's bar reaches beyond the scale");
     }
+    /**
+     * The defect chart's axis spans the data, not 0 to the largest defect: defects 3.131-3.136 with
+     * bars of 1e-4 (numbers invented, only the range rule is checked) give the span of the bars plus 8 %
+     * each side; a flagged member far off does not widen it (it is drawn on the edge); a flat series
+     * with tiny bars still gets the least span.
+     */
+    @Test
+    void theDefectAxisSpansTheDataNotZero() {
+        double[] delta = {3.131, 3.132, 3.1335, 3.136};
+        double[] u = {1e-4, 1e-4, 1e-4, 1e-4};
+        boolean[] none = new boolean[4];
+        double[] curve = {3.1311, 3.1359};
+        double[] range = Plots.defectAxisRange(delta, u, none, curve);
+        double span = 3.1361 - 3.1309;
+        assertEquals(3.1309 - 0.08 * span, range[0], 1e-12);
+        assertEquals(3.1361 + 0.08 * span, range[1], 1e-12);
+        double[] withOutlier = {3.131, 3.132, 3.5, 3.136};
+        boolean[] flagged = {false, false, true, false};
+        double[] same = Plots.defectAxisRange(withOutlier, u, flagged, curve);
+        assertEquals(range[0], same[0], 1e-12);
+        assertEquals(3.1361 + 0.08 * span, same[1], 1e-12);
+        double[] flat = Plots.defectAxisRange(new double[] {2.5, 2.5}, new double[] {1e-12, 1e-12},
+                new boolean[2], new double[] {2.5});
+        assertEquals(Plots.LEAST_DEFECT_SPAN, flat[1] - flat[0], 1e-12);
+        assertEquals(2.5, (flat[0] + flat[1]) / 2, 1e-12);
+
+        System.setProperty("java.awt.headless", "true");
+        XYPlot plot = (XYPlot) Plots.defectChart("t", new double[] {20, 22, 24, 26}, withOutlier, u, flagged,
+                new double[] {20, 26}, curve).getPlot();
+        assertEquals(same[0], plot.getRangeAxis().getLowerBound(), 1e-12);
+        assertEquals(same[1], plot.getRangeAxis().getUpperBound(), 1e-12);
+        // the members with their bars, the flagged one on the edge, and the fitted curve
+        assertEquals(2, plot.getDataset(0).getSeriesCount());
+        assertEquals(3, plot.getDataset(0).getItemCount(0));
+        assertEquals(same[1], plot.getDataset(0).getYValue(1, 0), 1e-12);
+        assertEquals(2, plot.getDataset(1).getItemCount(0));
+    }
 }

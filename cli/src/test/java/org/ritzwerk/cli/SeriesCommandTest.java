@@ -61,9 +61,11 @@ class SeriesCommandTest {
         int members = 0;
         int predictions = 0;
         int fits = 0;
+        double weights = 0;
         for (String line : run.out().strip().split("\\R")) {
             JsonNode row = json.readTree(line);
             switch (row.get("kind").asString()) {
+                case "model" -> weights += row.get("weight").asDouble();
                 case "parameter" -> parameters.put(row.get("parameter").asString(), row);
                 case "member" -> {
                     members++;
@@ -90,6 +92,12 @@ class SeriesCommandTest {
         assertEquals(1.3464622, parameters.get("nD5/2 d0").get("value").asDouble(), 1e-8);
         assertEquals(-0.594, parameters.get("nD5/2 d2").get("value").asDouble(), 1e-5);
         assertTrue(parameters.get("limit").get("uncertainty").asDouble() > 0);
+        // the limit averaged over the models tried (BIC weights; Buckland et al. 1997): the same limit here,
+        // its uncertainty at least the chosen model's (each model's own, plus their spread, weighted)
+        JsonNode averaged = parameters.get("limit, model-averaged");
+        assertEquals(LIMIT, averaged.get("value").asDouble(), 1e-6);
+        assertTrue(averaged.get("uncertainty").asDouble() >= parameters.get("limit").get("uncertainty").asDouble());
+        assertEquals(1.0, weights, 1e-9);
 
         CliTest.Run text = CliTest.run("series", file.toString());
         assertEquals(0, text.code(), text.err());
@@ -98,7 +106,8 @@ class SeriesCommandTest {
         CliTest.Run csv = CliTest.run("series", file.toString(), "--format", "csv");
         assertEquals(0, csv.code(), csv.err());
         assertTrue(csv.out().startsWith("kind,species,series,members,rydberg_per_cm,chi_square,degrees_of_freedom,"
-                + "known_limit\nfit,\"Rb-87 I\",2,22,") && csv.out().contains("\nkind,parameter,value,uncertainty,unit\n"),
+                + "known_limit,chi_square_probability,fit_quality,uncertainty_scale\nfit,\"Rb-87 I\",2,22,")
+                && csv.out().contains("\nkind,parameter,value,uncertainty,scaled_uncertainty,unit\n"),
                 csv.out());
     }
 
@@ -201,17 +210,42 @@ class SeriesCommandTest {
         assertEquals(2, tooFew.code());
         assertTrue(tooFew.err().contains("few.csv: a fit with 2 parameters needs at least 3 members"), tooFew.err());
 
-        // a prediction where a series has no level is refused before anything is printed; one below the
-        // members is noted
+        // --predict over every series: where one series has no level at an n (nS1/2 at n = 3: 3 - 3.13 < 0)
+        // that series says so and the others are still predicted (nD5/2 at n = 3, extrapolated downwards)
         Path good = example(dir);
-        CliTest.Run none = CliTest.run("series", good.toString(), "--predict", "1,60");
-        assertEquals(2, none.code());
-        assertTrue(none.out().isEmpty()
-                && none.err().contains("--predict 1: series nS1/2 has no member at n = 1: its fitted defect"),
-                none.out() + none.err());
+        CliTest.Run three = CliTest.run("series", good.toString(), "--predict", "10,15,3", "--format", "json");
+        assertEquals(0, three.code(), three.err());
+        assertTrue(three.err().contains("note: --predict 3: series nS1/2 has no member at n = 3: its fitted defect")
+                && three.err().contains("leaves no positive effective n; not predicted"), three.err());
+        assertTrue(three.err().contains("note: --predict 3: n = 3 lies below the lowest member of nD5/2 (n = 20)"),
+                three.err());
+        JsonMapper json = JsonMapper.builder().build();
+        int predicted = 0;
+        int absent = 0;
+        for (String line : three.out().strip().split("\\R")) {
+            JsonNode row = json.readTree(line);
+            if (row.get("kind").asString().equals("prediction")) {
+                boolean none = row.get("energy_per_cm").isNull();
+                predicted += none ? 0 : 1;
+                absent += none ? 1 : 0;
+                assertEquals(none, row.get("series").asString().equals("nS1/2") && row.get("n").asInt() == 3, line);
+            }
+        }
+        assertEquals(5, predicted);
+        assertEquals(1, absent);
         CliTest.Run low = CliTest.run("series", good.toString(), "--predict", "8");
         assertEquals(0, low.code(), low.err());
-        assertTrue(low.err().contains("note: --predict 8 lies below the lowest member of nS1/2 (n = 20)"), low.err());
+        assertTrue(low.err().contains("note: --predict 8: n = 8 lies below the lowest member of nS1/2 (n = 20)"),
+                low.err());
+
+        // a row with an empty series name is refused with its line, not dropped
+        Path blank = dir.resolve("blank.csv");
+        Files.writeString(blank, "# ritzwerk-series 1\n# species: Rb-87 I\n# energy-unit: cm-1\n"
+                + "series,n,energy,uncertainty\nS,20,33305.1,0.001\nS,22,33382.6,0.001\nS,24,33438.8,0.001\n"
+                + ",45,33630,0.001\n");
+        CliTest.Run unnamed = CliTest.run("series", blank.toString());
+        assertEquals(2, unnamed.code(), unnamed.out());
+        assertTrue(unnamed.err().contains("blank.csv:8:1: column series: series needs a name"), unnamed.err());
 
         // energies that fall with n are no Rydberg series: refused with the line, not fitted into nonsense
         Path falling = dir.resolve("falling.csv");
@@ -221,6 +255,85 @@ class SeriesCommandTest {
         assertEquals(2, down.code(), down.out());
         assertTrue(down.err().contains("falling.csv:6:3: column energy: series 'nS1/2': the energy of n = 22 is not"
                 + " above that of n = 20 (line 5)"), down.err());
+    }
+
+    /**
+     * The example's members (exact, u = 1e-4 cm^-1) with nS1/2 n = 30 moved by +5 cm^-1: the fit is
+     * improbable, and the command says so (summary, notes on standard error, the fit row's quality and
+     * probability), shows the uncertainties scaled by S = sqrt(chi2 / dof), and flags the moved member
+     * first; the unmoved file is consistent and flags nothing.
+     */
+    @Test
+    void anImprobableFitIsSaidAndItsWrongMemberFlagged(@TempDir Path dir) throws IOException {
+        Path file = example(dir);
+        StringBuilder moved = new StringBuilder();
+        for (String line : Files.readAllLines(file)) {
+            String[] f = line.split(",");
+            if (line.startsWith("nS1/2,30,")) {
+                line = f[0] + "," + f[1] + "," + (Double.parseDouble(f[2]) + 5) + "," + f[3];
+            }
+            moved.append(line).append('\n');
+        }
+        Path bad = dir.resolve("moved.csv");
+        Files.writeString(bad, moved);
+        CliTest.Run text = CliTest.run("series", bad.toString());
+        assertEquals(0, text.code(), text.err());
+        assertTrue(text.out().lines().findFirst().orElseThrow().contains("IMPROBABLE"), text.out());
+        assertTrue(text.err().contains("note: the fit is improbable") && text.err().contains("stated uncertainties "
+                + "assume the model and the data are right"), text.err());
+        int line = Files.readAllLines(bad).indexOf(Files.readAllLines(bad).stream()
+                .filter(l -> l.startsWith("nS1/2,30,")).findFirst().orElseThrow()) + 1;
+        assertTrue(text.err().contains("the largest first: nS1/2 n = 30 (" + bad + ":" + line), text.err());
+        // refitted without that member alone, the fit is consistent again (a deletion diagnostic)
+        assertTrue(text.err().contains("refitted without nS1/2 n = 30 (" + bad + ":" + line + ") alone, the fit is "
+                + "consistent"), text.err());
+
+        CliTest.Run run = CliTest.run("series", bad.toString(), "--format", "json");
+        JsonMapper json = JsonMapper.builder().build();
+        double scale = Double.NaN;
+        boolean flaggedMoved = false;
+        for (String row : run.out().strip().split("\\R")) {
+            JsonNode node = json.readTree(row);
+            switch (node.get("kind").asString()) {
+                case "fit" -> {
+                    assertEquals("improbable", node.get("fit_quality").asString());
+                    assertTrue(node.get("chi_square_probability").asDouble() < 1e-3, row);
+                    scale = node.get("uncertainty_scale").asDouble();
+                    // S = sqrt(chi2 / dof), its definition
+                    assertEquals(Math.sqrt(node.get("chi_square").asDouble() / node.get("degrees_of_freedom")
+                            .asDouble()), scale, 1e-6 * scale);
+                }
+                case "parameter" -> {
+                    // the model-averaged limit carries no scaled uncertainty (its spread is its own)
+                    if (!node.get("parameter").asString().endsWith("model-averaged")) {
+                        assertEquals(scale * node.get("uncertainty").asDouble(),
+                                node.get("scaled_uncertainty").asDouble(),
+                                1e-9 * scale * node.get("uncertainty").asDouble());
+                    }
+                }
+                case "member" -> {
+                    boolean outlier = Math.abs(node.get("normalised_residual").asDouble()) > 3;
+                    assertEquals(outlier, "outlier".equals(node.get("flag").asString(null)), row);
+                    flaggedMoved |= outlier && node.get("series").asString().equals("nS1/2")
+                            && node.get("n").asInt() == 30;
+                }
+                default -> { }
+            }
+        }
+        assertTrue(scale > 1 && flaggedMoved, run.out());
+
+        CliTest.Run clean = CliTest.run("series", file.toString(), "--format", "json");
+        assertEquals(0, clean.code(), clean.err());
+        assertFalse(clean.err().contains("note:"), clean.err());
+        for (String row : clean.out().strip().split("\\R")) {
+            JsonNode node = json.readTree(row);
+            if (node.get("kind").asString().equals("fit")) {
+                assertEquals("consistent", node.get("fit_quality").asString());
+                assertEquals(1.0, node.get("uncertainty_scale").asDouble());
+            } else if (node.get("kind").asString().equals("member")) {
+                assertTrue(node.get("flag").isNull(), row);
+            }
+        }
     }
 
     @Test

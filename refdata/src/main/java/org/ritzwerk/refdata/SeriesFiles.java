@@ -32,7 +32,7 @@ import org.ritzwerk.quantity.Unit;
  * required, {@code title}, {@code source} and {@code note} optional. Every column is required:
  * {@code series} (a name; rows of one name form one series, in the order the names first appear),
  * {@code n} (an integer 1 to 10000, once per series), {@code energy} above the ground level and its
- * standard {@code uncertainty} (positive). In JSON the key is {@code energyUnit} and the rows are
+ * standard {@code uncertainty} (positive); an empty or blank field in any of them is an error. In JSON the key is {@code energyUnit} and the rows are
  * under {@code members}. Every problem is reported with file, line and column, all at once.
  * Stateless and thread-safe.
  */
@@ -110,8 +110,11 @@ public final class SeriesFiles {
         for (TabularFiles.Row row : p.rows) {
             int before = p.problems.size();
             String name = p.text(row, "series");
-            if (name != null && name.isBlank()) {
-                p.rowProblem(row, "series", "data.missing-value", "series needs a name");
+            // An empty field reads as no value: refused like a blank name, never dropped (a row
+            // whose text was refused already has its problem)
+            if ((name == null && p.problems.size() == before) || (name != null && name.isBlank())) {
+                p.rowProblem(row, "series", "data.missing-value", "series needs a name (rows of one name form "
+                        + "one series)");
             }
             double n = p.number(row, "n", true);
             double energy = p.number(row, "energy", true);

@@ -3,24 +3,60 @@ package org.ritzwerk.engine.ritz;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
 import java.util.OptionalDouble;
+import org.apache.commons.numbers.gamma.RegularizedGamma;
 
 /**
  * The result of a {@link SeriesFitter}: the series limit and each series' quantum-defect
  * coefficients with their covariance, the members' residuals, chi^2, and every model tried with its
  * information criterion; predictions of members not measured. Energies in cm^-1 above the ground
- * level. Immutable and thread-safe (accessors return copies).
+ * level.
+ *
+ * <p><b>Goodness of fit.</b> The stated uncertainties ({@link #covariance()}) hold only when the
+ * model and the data are right: the members follow the Rydberg-Ritz formula with the chosen terms
+ * and their stated uncertainties. The result says when that is doubtful: the chance of a chi^2 at
+ * least as large for data that follow the model ({@link #chiSquareProbability()},
+ * {@code Q(dof / 2, chi^2 / 2)}, the chi-square distribution's upper tail, common practice),
+ * improbable below {@value #IMPROBABLE_PROBABILITY}; the scale factor
+ * {@code S = sqrt(chi^2 / dof)} when above 1 ({@link #uncertaintyScale()}: common practice, the
+ * Birge ratio, as the Particle Data Group scales inconsistent data), by which the uncertainties
+ * would grow if every member's uncertainty were understated alike (it does not rescue a wrong
+ * member or a wrong model); and every member whose normalised residual {@code (E - E_fit) / u}
+ * exceeds {@value #OUTLIER_SIGMA} in size ({@link #isOutlier}, common practice: 3 standard
+ * uncertainties, a chance of 0.27 % per member for a normal error). An improbable fit also carries
+ * the best refit without one member ({@link #bestDeletion()}). {@link #notes()} puts these into
+ * sentences for a reader. Immutable and thread-safe (accessors return copies).
  */
 public final class SeriesFit {
+
+    /** A member whose |residual / u| exceeds this is flagged as an outlier (common practice). */
+    public static final double OUTLIER_SIGMA = 3;
+    /** A fit whose chi-square probability is below this is improbable (common practice: 0.1 %). */
+    public static final double IMPROBABLE_PROBABILITY = 1e-3;
 
     /**
      * One model the fitter tried.
      *
-     * @param terms     the number of defect terms of each series
-     * @param chiSquare its chi^2
-     * @param bic       its Bayesian information criterion {@code chi^2 + p ln N}
+     * @param terms                 the number of defect terms of each series
+     * @param chiSquare             its chi^2
+     * @param bic                   its Bayesian information criterion {@code chi^2 + p ln N}
+     * @param limitPerCm            its series limit, cm^-1
+     * @param limitUncertaintyPerCm that limit's standard uncertainty (stated, unscaled), cm^-1
      */
-    public record Candidate(List<Integer> terms, double chiSquare, double bic) {
+    public record Candidate(List<Integer> terms, double chiSquare, double bic, double limitPerCm,
+            double limitUncertaintyPerCm) {
+    }
+
+    /**
+     * The series limit averaged over the models tried ({@link #modelAveragedLimit()}).
+     *
+     * @param limitPerCm       the averaged limit, cm^-1
+     * @param uncertaintyPerCm its standard uncertainty, with the spread between the models, cm^-1
+     * @param weights          each candidate's weight, in the order of {@link #candidates()}, summing to 1
+     */
+    public record ModelAverage(double limitPerCm, double uncertaintyPerCm, List<Double> weights) {
     }
 
     /**
@@ -34,6 +70,39 @@ public final class SeriesFit {
     public record Member(int n, double energyPerCm, double uncertaintyPerCm, double quantumDefect) {
     }
 
+    /**
+     * A prediction asked of one series ({@link #predictions}): the member where the series has one,
+     * and a note where it has none or where the defect expansion is extrapolated below the lowest
+     * measured member.
+     *
+     * @param series the series index
+     * @param n      the principal quantum number asked
+     * @param member the predicted member, or empty where the fitted defect leaves no level
+     * @param note   why there is no member, or that the prediction lies below the measured members;
+     *               empty otherwise
+     */
+    public record Prediction(int series, int n, Optional<Member> member, Optional<String> note) {
+    }
+
+    /**
+     * The refit without one member ({@link #bestDeletion()}): the member left out and what the fit
+     * then gives.
+     *
+     * @param series                the member's series index
+     * @param index                 its index in that series
+     * @param n                     its n
+     * @param where                 where it was read
+     * @param chiSquare             the refit's chi^2
+     * @param degreesOfFreedom      the refit's degrees of freedom
+     * @param probability           the refit's chi-square probability (1 without degrees of freedom)
+     * @param limitPerCm            the refit's limit, cm^-1
+     * @param limitUncertaintyPerCm its standard uncertainty, cm^-1
+     * @param terms                 the refit's terms per series
+     */
+    public record Deletion(int series, int index, int n, String where, double chiSquare, int degreesOfFreedom,
+            double probability, double limitPerCm, double limitUncertaintyPerCm, List<Integer> terms) {
+    }
+
     private final SeriesFitter.Model model;
     private final int[] terms;
     private final double[] parameters;
@@ -41,9 +110,10 @@ public final class SeriesFit {
     private final double chiSquare;
     private final int points;
     private final List<Candidate> candidates;
+    private final Deletion deletion;
 
     SeriesFit(SeriesFitter.Model model, int[] terms, double[] parameters, double[][] covariance, double chiSquare,
-            int points, List<Candidate> candidates) {
+            int points, List<Candidate> candidates, Deletion deletion) {
         this.model = model;
         this.terms = terms;
         this.parameters = parameters;
@@ -51,6 +121,25 @@ public final class SeriesFit {
         this.chiSquare = chiSquare;
         this.points = points;
         this.candidates = List.copyOf(candidates);
+        this.deletion = deletion;
+    }
+
+    /** @return this fit with the deletion diagnostic (null: none) */
+    SeriesFit withDeletion(Deletion d) {
+        return new SeriesFit(model, terms, parameters, covariance, chiSquare, points, candidates, d);
+    }
+
+    /**
+     * For an improbable fit only: the refit (same settings, terms chosen again where the criterion
+     * chooses them) without the one member whose removal gives the most probable chi^2. When that
+     * refit is consistent, that member alone is the likeliest wrong one; when it is still improbable,
+     * more than one member, or the model, is wrong.
+     *
+     * @return the best refit without one member, or empty for a fit that is not improbable (or where
+     *         no refit was possible)
+     */
+    public Optional<Deletion> bestDeletion() {
+        return Optional.ofNullable(deletion);
     }
 
     /** @return the series fitted, in the order given */
@@ -143,14 +232,187 @@ public final class SeriesFit {
         return chiSquare;
     }
 
-    /** @return members minus parameters */
+    /** @return members (and the known limit, where given) minus parameters */
     public int degreesOfFreedom() {
         return points - parameters.length;
+    }
+
+    /**
+     * @return chi^2 / dof, or empty without degrees of freedom
+     */
+    public OptionalDouble reducedChiSquare() {
+        int dof = degreesOfFreedom();
+        return dof > 0 ? OptionalDouble.of(chiSquare / dof) : OptionalDouble.empty();
+    }
+
+    /**
+     * The chance of a chi^2 at least this large for members that follow the fitted model with their
+     * stated uncertainties, {@code Q(dof / 2, chi^2 / 2)} (the regularized upper incomplete gamma
+     * function, Apache Commons Numbers 1.1 {@code RegularizedGamma.Q}; common practice). It ignores
+     * that the terms were chosen by the data, which makes it somewhat too large.
+     *
+     * @return the probability, 0 to 1 (0 where it underflows double precision), or empty without
+     *         degrees of freedom
+     */
+    public OptionalDouble chiSquareProbability() {
+        int dof = degreesOfFreedom();
+        return dof > 0 ? OptionalDouble.of(RegularizedGamma.Q.value(dof / 2.0, chiSquare / 2))
+                : OptionalDouble.empty();
+    }
+
+    /**
+     * @return whether the chi-square probability is below {@value #IMPROBABLE_PROBABILITY}: the model
+     *         or the data (a member, its n, its uncertainty) are wrong, and the stated uncertainties do
+     *         not hold
+     */
+    public boolean isImprobable() {
+        return chiSquareProbability().orElse(1) < IMPROBABLE_PROBABILITY;
+    }
+
+    /**
+     * The scale factor {@code S = sqrt(chi^2 / dof)} where above 1, else 1 (and 1 without degrees of
+     * freedom): common practice (the Birge ratio; the Particle Data Group's scale factor) multiplies
+     * every stated uncertainty by S when the data scatter more than their uncertainties say. It
+     * assumes the model right and every uncertainty understated by one factor; it does not rescue an
+     * outlier or a wrong model.
+     *
+     * @return S, at least 1
+     */
+    public double uncertaintyScale() {
+        return Math.max(1, Math.sqrt(reducedChiSquare().orElse(1)));
+    }
+
+    /**
+     * @param s series index
+     * @param i member index in that series
+     * @return the member's residual in its stated standard uncertainty, {@code (E - E_fit) / u}
+     */
+    public double normalisedResidual(int s, int i) {
+        return residualPerCm(s, i) / model.series.get(s).uncertaintyPerCm(i);
+    }
+
+    /**
+     * @param s series index
+     * @param i member index in that series
+     * @return whether |{@link #normalisedResidual}| exceeds {@value #OUTLIER_SIGMA}
+     */
+    public boolean isOutlier(int s, int i) {
+        return Math.abs(normalisedResidual(s, i)) > OUTLIER_SIGMA;
+    }
+
+    /**
+     * Sentences for a reader on what the fit does not support: an improbable chi^2 (with its
+     * probability, the reduced chi^2 and the scale factor), members beyond {@value #OUTLIER_SIGMA}
+     * standard uncertainties (series, n, where read, residual / u), members at or above the fitted
+     * limit, and terms chosen by the criterion under an improbable fit.
+     *
+     * @return the notes, empty for a fit that gives no cause
+     */
+    public List<String> notes() {
+        List<String> notes = new ArrayList<>();
+        if (isImprobable()) {
+            notes.add(String.format(Locale.ROOT, "the fit is improbable: chi2 = %.4g for %d degrees of freedom "
+                    + "(reduced chi2 %.4g) has a chance of %s for members that follow the Rydberg-Ritz formula "
+                    + "with their stated uncertainties. The stated uncertainties assume the model and the data "
+                    + "are right, which they are not; scaled by sqrt(reduced chi2) = %.4g they would hold only "
+                    + "if every member's uncertainty were understated alike. Check the flagged members (their n, "
+                    + "series and energy) and the uncertainties", chiSquare, degreesOfFreedom(),
+                    reducedChiSquare().orElseThrow(), probabilityText(chiSquareProbability().orElseThrow()),
+                    uncertaintyScale()));
+            if (candidates.size() > 1) {
+                notes.add("the terms " + Arrays.toString(terms) + " were chosen by the information criterion "
+                        + "from an improbable fit: extra terms may only absorb a wrong member; fix them (--terms, "
+                        + "SeriesFitter.withTerms) once the data are mended");
+            }
+        }
+        if (deletion != null) {
+            boolean consistent = deletion.probability() >= IMPROBABLE_PROBABILITY;
+            notes.add(String.format(Locale.ROOT, "refitted without %s n = %d (%s) alone, the fit is %s: chi2 = %.4g "
+                    + "for %d degrees of freedom (probability %s), limit %.6f +- %.2g cm-1, terms %s%s",
+                    model.series.get(deletion.series()).name(), deletion.n(), deletion.where(),
+                    consistent ? "consistent" : "still improbable", deletion.chiSquare(), deletion.degreesOfFreedom(),
+                    probabilityText(deletion.probability()), deletion.limitPerCm(), deletion.limitUncertaintyPerCm(),
+                    deletion.terms(), consistent ? "; that member is the likeliest wrong one"
+                            : "; no single member explains the misfit (several are wrong, or the model)"));
+        }
+        List<int[]> outliers = new ArrayList<>();
+        List<String> above = new ArrayList<>();
+        for (int s = 0; s < model.series.size(); s++) {
+            RydbergSeries one = model.series.get(s);
+            for (int i = 0; i < one.size(); i++) {
+                if (isOutlier(s, i)) {
+                    outliers.add(new int[] {s, i});
+                }
+                if (!(one.energyPerCm(i) < limitPerCm())) {
+                    above.add(one.name() + " n = " + one.n(i) + " (" + one.where(i) + ")");
+                }
+            }
+        }
+        if (!outliers.isEmpty()) {
+            // the largest first: one wrong member drags the fit, and with it the others' residuals
+            outliers.sort((a, b) -> Double.compare(Math.abs(normalisedResidual(b[0], b[1])),
+                    Math.abs(normalisedResidual(a[0], a[1]))));
+            List<String> flagged = new ArrayList<>();
+            for (int[] o : outliers) {
+                RydbergSeries one = model.series.get(o[0]);
+                flagged.add(String.format(Locale.ROOT, "%s n = %d (%s, residual/u = %.3g)", one.name(), one.n(o[1]),
+                        one.where(o[1]), normalisedResidual(o[0], o[1])));
+            }
+            notes.add(flagged.size() + (flagged.size() == 1 ? " member lies" : " members lie") + " beyond "
+                    + (int) OUTLIER_SIGMA + " standard uncertainties of the fit, the largest first: "
+                    + String.join("; ", flagged));
+        }
+        if (!above.isEmpty()) {
+            notes.add(String.format(Locale.ROOT, "%s at or above the fitted limit %.6f cm-1, where no member of "
+                    + "a series lies: %s", above.size() == 1 ? "a member is" : above.size() + " members are",
+                    limitPerCm(), String.join("; ", above)));
+        }
+        return notes;
     }
 
     /** @return every model tried, in order, the chosen one among them */
     public List<Candidate> candidates() {
         return candidates;
+    }
+
+    /**
+     * The limit averaged over the models tried, with BIC weights
+     * {@code w_k = exp(-(BIC_k - BIC_min) / 2) / sum}, the average {@code L = sum w_k L_k} and the
+     * unconditional standard uncertainty {@code u = sum w_k sqrt(u_k^2 + (L_k - L)^2)} (S. T. Buckland,
+     * K. P. Burnham and N. H. Augustin, Biometrics 53, 603 (1997), eq. 9; K. P. Burnham and D. R.
+     * Anderson, Model Selection and Multimodel Inference, 2nd ed. (2002), eq. 4.9; both from memory).
+     * It carries the uncertainty of the choice of terms, which {@link #limitUncertaintyPerCm()} (the
+     * chosen model's alone) leaves out: see {@link SeriesFitter} for the coverage of both on seeded
+     * series. The models are those the stepwise search tried, not every combination of terms; with the
+     * terms fixed there is one, and the average is the fit's own limit.
+     *
+     * @return the averaged limit, its uncertainty and the weights
+     */
+    public ModelAverage modelAveragedLimit() {
+        double lowest = Double.POSITIVE_INFINITY;
+        for (Candidate c : candidates) {
+            lowest = Math.min(lowest, c.bic());
+        }
+        double[] w = new double[candidates.size()];
+        double sum = 0;
+        for (int k = 0; k < w.length; k++) {
+            w[k] = Math.exp(-(candidates.get(k).bic() - lowest) / 2);
+            sum += w[k];
+        }
+        double mean = 0;
+        List<Double> weights = new ArrayList<>();
+        for (int k = 0; k < w.length; k++) {
+            w[k] /= sum;
+            weights.add(w[k]);
+            mean += w[k] * candidates.get(k).limitPerCm();
+        }
+        double u = 0;
+        for (int k = 0; k < w.length; k++) {
+            Candidate c = candidates.get(k);
+            double spread = c.limitPerCm() - mean;
+            u += w[k] * Math.sqrt(c.limitUncertaintyPerCm() * c.limitUncertaintyPerCm() + spread * spread);
+        }
+        return new ModelAverage(mean, u, List.copyOf(weights));
     }
 
     /**
@@ -177,6 +439,98 @@ public final class SeriesFit {
     }
 
     /**
+     * @param p a probability
+     * @return it with two digits, or {@code below 1e-300} where it underflowed to 0
+     */
+    public static String probabilityText(double p) {
+        return p > 0 ? String.format(Locale.ROOT, "%.2g", p) : "below 1e-300";
+    }
+
+    /**
+     * The standard uncertainty of {@link #measuredDefect} from the member's energy uncertainty alone,
+     * {@code u(delta) = n*^3 u(E) / (2 R_M)} with {@code n* = sqrt(R_M / (E_limit - E))}
+     * (the derivative of {@code n - sqrt(R_M / (E_limit - E))} in E). The limit's uncertainty, common
+     * to all members of all series, is left out.
+     *
+     * @param s series index
+     * @param i member index
+     * @return u(delta), dimensionless, or empty for a member at or above the fitted limit
+     */
+    public OptionalDouble measuredDefectUncertainty(int s, int i) {
+        RydbergSeries one = model.series.get(s);
+        double binding = limitPerCm() - one.energyPerCm(i);
+        if (!(binding > 0)) {
+            return OptionalDouble.empty();
+        }
+        double nStar = Math.sqrt(model.rydberg / binding);
+        return OptionalDouble.of(nStar * nStar * nStar * one.uncertaintyPerCm(i) / (2 * model.rydberg));
+    }
+
+    /**
+     * The fitted quantum defect as a smooth function of n,
+     * {@code delta(n) = d0 + d2 / (n - d0)^2 + d4 / (n - d0)^4 + ...} (for drawing the fitted curve).
+     *
+     * @param s series index
+     * @param n principal quantum number, real, above the series' d0
+     * @return delta(n), dimensionless
+     * @throws IllegalArgumentException for n not finite or not above d0
+     */
+    public double fittedDefect(int s, double n) {
+        double[] d = defects(s);
+        if (!(n > d[0]) || Double.isInfinite(n)) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "n must be finite and above d0 = %.6f of "
+                    + "series %s, got %s", d[0], model.series.get(s).name(), n));
+        }
+        double x = 1 / ((n - d[0]) * (n - d[0]));
+        double sum = 0;
+        double power = 1;
+        for (double c : d) {
+            sum += c * power;
+            power *= x;
+        }
+        return sum;
+    }
+
+    /**
+     * Every asked member of every series, in series order then in the order asked: where a series
+     * has no level at an n (the fitted defect leaves no positive effective n) the prediction has no
+     * member and a note saying so, and the other series are still predicted; an n below a series'
+     * lowest measured member is predicted with a note that the defect expansion is extrapolated
+     * downwards there, where it usually fails.
+     *
+     * @param n principal quantum numbers, each at least 1
+     * @return the predictions
+     * @throws IllegalArgumentException for an n below 1
+     */
+    public List<Prediction> predictions(int... n) {
+        List<Prediction> out = new ArrayList<>();
+        for (int s = 0; s < model.series.size(); s++) {
+            RydbergSeries one = model.series.get(s);
+            int lowest = Integer.MAX_VALUE;
+            for (int i = 0; i < one.size(); i++) {
+                lowest = Math.min(lowest, one.n(i));
+            }
+            for (int k : n) {
+                if (k < 1) {
+                    throw new IllegalArgumentException("n must be at least 1, got " + k);
+                }
+                Member member;
+                try {
+                    member = predict(s, k);
+                } catch (IllegalArgumentException e) {
+                    out.add(new Prediction(s, k, Optional.empty(), Optional.of(e.getMessage() + "; not predicted")));
+                    continue;
+                }
+                Optional<String> note = k >= lowest ? Optional.empty() : Optional.of(String.format(Locale.ROOT,
+                        "n = %d lies below the lowest member of %s (n = %d): the defect expansion is extrapolated "
+                        + "downwards there, where it usually fails", k, one.name(), lowest));
+                out.add(new Prediction(s, k, Optional.of(member), note));
+            }
+        }
+        return out;
+    }
+
+    /**
      * @param s series index
      * @param n principal quantum number (measured or not), above the series' d0
      * @return the member's energy, its uncertainty from the covariance, and delta(n)
@@ -193,7 +547,7 @@ public final class SeriesFit {
         }
         Member member = member(s, n);
         if (!(n - member.quantumDefect() > 0) || !Double.isFinite(member.energyPerCm())) {
-            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "series %s has no member at n = %d:"
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "series %s has no member at n = %d:"
                     + " its fitted defect %.4f leaves no positive effective n", model.series.get(s).name(), n,
                     member.quantumDefect()));
         }

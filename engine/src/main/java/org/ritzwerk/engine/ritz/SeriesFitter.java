@@ -32,14 +32,24 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
  * series where the gain lowers the Bayesian information criterion
  * {@code BIC = chi^2 + p ln N} the most (G. Schwarz, Ann. Statist. 6, 461 (1978); with Gaussian
  * errors of known size, -2 ln L is chi^2 up to a constant), until no added term lowers it. Every
- * model tried is in the result ({@link SeriesFit#candidates()}).
+ * model tried is in the result ({@link SeriesFit#candidates()}), with its own limit.
+ *
+ * <p><b>Coverage after the choice.</b> The chosen model's uncertainties ignore that the data chose
+ * it: on seeded synthetic series (two series, n = 20-60, true model two terms each) the limit's rms
+ * pull is 1.02-1.09 over 600 trials for each of three seeds (|pull| &lt; 1 in 64-66 %, against 68.3 % for
+ * a normal; 1.24 and 1.56 in one seed's trials where a spurious term was added), 1.02 with the terms
+ * fixed. The result also gives the
+ * limit averaged over the models tried with BIC weights ({@link SeriesFit#modelAveragedLimit()},
+ * Buckland, Burnham &amp; Augustin 1997), whose uncertainty includes the spread between the models:
+ * rms pull 0.90-0.96 on the same trials (|pull| &lt; 1 in 72-73 %), slightly conservative.
  *
  * <p><b>Known limit.</b> A limit known from elsewhere (a published ionization energy with its
  * standard uncertainty, {@link #withLimit}) enters the fit as one more datum, {@code (E_limit - L) / u_L},
  * beside the members; it counts as a datum in the information criterion and the degrees of freedom.
  *
  * <p><b>Uncertainties.</b> The covariance is {@code (J^T W J)^-1} at the optimum, from the members'
- * stated uncertainties (not scaled by chi^2 / dof; the result gives both so the caller can).
+ * stated uncertainties (not scaled by chi^2 / dof; the result gives the chance probability of chi^2, the
+ * scale factor and the members beyond 3 sigma, and says when the fit is improbable: {@link SeriesFit}).
  * Predicted members carry {@code u(E) = sqrt(g^T C g)}, g the gradient of E(n) in the parameters.
  * With the number of terms fixed ({@link #withTerms}), as many data as parameters are accepted: the
  * fit then interpolates (chi^2 = 0, no degrees of freedom), and the covariance carries the data's
@@ -121,6 +131,58 @@ public final class SeriesFitter {
      *                                  the series, or two series of one name
      */
     public SeriesFit fit(double rydbergPerCm, List<RydbergSeries> series) {
+        SeriesFit fit = fitOnce(rydbergPerCm, series);
+        return fit.isImprobable() ? fit.withDeletion(bestDeletion(rydbergPerCm, series)) : fit;
+    }
+
+    /**
+     * For an improbable fit: refits (with these settings) without each member in turn, and keeps the
+     * refit whose chi^2 probability is highest (the lowest reduced chi^2 where probabilities underflow),
+     * a deletion diagnostic (common practice: the deleted residual of one observation at a time).
+     * Members whose removal leaves too few data are skipped.
+     *
+     * @return the best refit, or null when none converged
+     */
+    private SeriesFit.Deletion bestDeletion(double rydbergPerCm, List<RydbergSeries> series) {
+        SeriesFit.Deletion best = null;
+        for (int s = 0; s < series.size(); s++) {
+            RydbergSeries one = series.get(s);
+            for (int i = 0; i < one.size(); i++) {
+                if (one.size() == 1) {
+                    continue;
+                }
+                RydbergSeries.Builder b = RydbergSeries.builder(one.name());
+                for (int k = 0; k < one.size(); k++) {
+                    if (k != i) {
+                        b.add(one.n(k), one.energyPerCm(k), one.uncertaintyPerCm(k), one.where(k));
+                    }
+                }
+                List<RydbergSeries> without = new ArrayList<>(series);
+                without.set(s, b.build());
+                SeriesFit refit;
+                try {
+                    refit = fitOnce(rydbergPerCm, without);
+                } catch (RitzException e) {
+                    continue;
+                }
+                double p = refit.chiSquareProbability().orElse(1);
+                double reduced = refit.reducedChiSquare().orElse(0);
+                if (best == null || p > best.probability() || (p == best.probability()
+                        && reduced < best.chiSquare() / Math.max(1, best.degreesOfFreedom()))) {
+                    List<Integer> terms = new ArrayList<>();
+                    for (int k = 0; k < series.size(); k++) {
+                        terms.add(refit.terms(k));
+                    }
+                    best = new SeriesFit.Deletion(s, i, one.n(i), one.where(i), refit.chiSquare(),
+                            refit.degreesOfFreedom(), p, refit.limitPerCm(), refit.limitUncertaintyPerCm(),
+                            List.copyOf(terms));
+                }
+            }
+        }
+        return best;
+    }
+
+    private SeriesFit fitOnce(double rydbergPerCm, List<RydbergSeries> series) {
         Objects.requireNonNull(series, "series");
         if (!(rydbergPerCm > 0) || Double.isInfinite(rydbergPerCm)) {
             throw new IllegalArgumentException("R_M must be finite and positive cm-1, got " + rydbergPerCm);
@@ -159,7 +221,7 @@ public final class SeriesFitter {
             throw new RitzException(RitzException.NO_CONVERGENCE, "the Rydberg-Ritz fit of " + names(series)
                     + " did not converge (are the n values and energies of one series?)");
         }
-        tried.add(best.candidate(total));
+        tried.add(best.candidate(total, model.offset));
         if (fixedTerms == null) {
             while (true) {
                 Solution next = null;
@@ -173,7 +235,7 @@ public final class SeriesFitter {
                     if (trial == null) {
                         continue;
                     }
-                    tried.add(trial.candidate(total));
+                    tried.add(trial.candidate(total, model.offset));
                     if (trial.bic(total) < (next == null ? best.bic(total) : next.bic(total))) {
                         next = trial;
                     }
@@ -184,7 +246,7 @@ public final class SeriesFitter {
                 best = next;
             }
         }
-        return new SeriesFit(model, best.terms, best.parameters, best.covariance, best.chiSquare, total, tried);
+        return new SeriesFit(model, best.terms, best.parameters, best.covariance, best.chiSquare, total, tried, null);
     }
 
     private static int[] filled(int n, int value) {
@@ -222,9 +284,9 @@ public final class SeriesFitter {
             return chiSquare + parameters.length * Math.log(points);
         }
 
-        SeriesFit.Candidate candidate(int points) {
+        SeriesFit.Candidate candidate(int points, double offset) {
             return new SeriesFit.Candidate(List.of(Arrays.stream(terms).boxed().toArray(Integer[]::new)), chiSquare,
-                    bic(points));
+                    bic(points), offset + parameters[0], Math.sqrt(covariance[0][0]));
         }
     }
 

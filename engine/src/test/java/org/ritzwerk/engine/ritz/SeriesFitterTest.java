@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.ritz;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -16,8 +17,13 @@ class SeriesFitterTest {
     private static final double LIMIT = 198_310.67;
 
     private static RydbergSeries synthetic(String name, Random r, List<Double> defects, int from, int to, double sigma) {
+        return synthetic(name, r, defects, from, to, 1, sigma);
+    }
+
+    private static RydbergSeries synthetic(String name, Random r, List<Double> defects, int from, int to, int step,
+            double sigma) {
         RydbergSeries.Builder b = RydbergSeries.builder(name);
-        for (int n = from; n <= to; n++) {
+        for (int n = from; n <= to; n += step) {
             b.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT, R, defects, n) + sigma * r.nextGaussian(), sigma);
         }
         return b.build();
@@ -47,6 +53,55 @@ class SeriesFitterTest {
             assertEquals(1.0, Math.sqrt(sumSquares[k] / trials), 0.12, "rms pull of parameter " + k);
             assertEquals(0.95, within[k] / (double) trials, 0.04, "coverage of parameter " + k);
         }
+    }
+
+    /**
+     * Coverage with the terms chosen by the criterion, over 400 seeded trials of two series (n = 20, 22,
+     * ..., 60, u = 0.002 cm^-1, invented defects of two terms each; about 10 % of trials gain a spurious
+     * term): the chosen model's own uncertainty undercovers (rms pull above 1), the model-averaged limit
+     * (Buckland et al. 1997) covers at least the nominal rate. Bounds: 400 unit normals give an rms
+     * within 0.035 of 1 and a share within 1.96 sigma of 0.95 within 0.011 (one sigma each); the
+     * averaged interval is known to be somewhat conservative (Burnham &amp; Anderson 2002), so its rms
+     * may lie below 1.
+     */
+    @Test
+    void theModelAveragedLimitKeepsItsCoverageWhenTheCriterionChooses() {
+        Random r = new Random(1);
+        List<List<Double>> truth = List.of(List.of(2.5, -0.6), List.of(1.2, 0.9));
+        int trials = 400;
+        double selected = 0;
+        double averaged = 0;
+        int within = 0;
+        for (int t = 0; t < trials; t++) {
+            RydbergSeries a = synthetic("a", r, truth.get(0), 20, 60, 2, 0.002);
+            RydbergSeries b = synthetic("b", r, truth.get(1), 20, 60, 2, 0.002);
+            SeriesFit fit = SeriesFitter.defaults().fit(R, List.of(a, b));
+            double p = (fit.limitPerCm() - LIMIT) / fit.limitUncertaintyPerCm();
+            selected += p * p;
+            SeriesFit.ModelAverage m = fit.modelAveragedLimit();
+            assertEquals(1.0, m.weights().stream().mapToDouble(Double::doubleValue).sum(), 1e-12);
+            double q = (m.limitPerCm() - LIMIT) / m.uncertaintyPerCm();
+            averaged += q * q;
+            within += Math.abs(q) <= 1.96 ? 1 : 0;
+        }
+        double rmsSelected = Math.sqrt(selected / trials);
+        double rmsAveraged = Math.sqrt(averaged / trials);
+        assertTrue(rmsSelected > 1.03, "the chosen model alone undercovers: rms pull " + rmsSelected);
+        assertTrue(rmsAveraged > 0.85 && rmsAveraged < 1.05, "averaged rms pull " + rmsAveraged);
+        assertTrue(within / (double) trials >= 0.94, "averaged share within 1.96 sigma " + within / (double) trials);
+    }
+
+    /** With the terms fixed there is one model: the average is the fit's own limit and uncertainty. */
+    @Test
+    void withFixedTermsTheAverageIsTheFit() {
+        SeriesFit fit = SeriesFitter.defaults().withTerms(2).fit(R, List.of(synthetic("S", new Random(4),
+                List.of(0.2965, 0.035), 4, 25, 0.02)));
+        SeriesFit.ModelAverage m = fit.modelAveragedLimit();
+        assertEquals(fit.limitPerCm(), m.limitPerCm(), 1e-9);
+        assertEquals(fit.limitUncertaintyPerCm(), m.uncertaintyPerCm(), 1e-15);
+        assertEquals(List.of(1.0), m.weights());
+        SeriesFit.Candidate only = fit.candidates().get(0);
+        assertEquals(fit.limitPerCm(), only.limitPerCm(), 1e-9);
     }
 
     @Test
@@ -206,6 +261,134 @@ class SeriesFitterTest {
         double slope = (fitted(energy, sigma, LIMIT + 1e-4).predict(0, 6).energyPerCm() - base) / 1e-4;
         variance += slope * slope * 1e-6;
         assertEquals(Math.sqrt(variance), u, 1e-3 * u);
+    }
+
+    /**
+     * A seeded synthetic series (n = 20, 22, ..., 40, u = 0.002 cm^-1) with one member moved by +5 cm^-1
+     * (2500 of its uncertainties): the fit says it is improbable, gives the chance probability and the
+     * scale factor, and flags the moved member; the same series unmoved gives no note.
+     */
+    @Test
+    void anImprobableFitIsSaidAndTheWrongMemberFlagged() {
+        List<Double> truth = List.of(3.269, -0.3);
+        RydbergSeries.Builder clean = RydbergSeries.builder("nS");
+        RydbergSeries.Builder moved = RydbergSeries.builder("nS");
+        Random r = new Random(30);
+        for (int n = 20; n <= 40; n += 2) {
+            double e = AlkaliAtom.rydbergRitzEnergy(LIMIT, R, truth, n) + 0.002 * r.nextGaussian();
+            clean.add(n, e, 0.002, "s.csv:" + n);
+            moved.add(n, e + (n == 30 ? 5 : 0), 0.002, "s.csv:" + n);
+        }
+        SeriesFit good = SeriesFitter.defaults().fit(R, List.of(clean.build()));
+        // seeded noise at its stated size: chi2 near its degrees of freedom, no flag, no note
+        assertFalse(good.isImprobable(), good.toString());
+        assertTrue(good.chiSquareProbability().orElseThrow() > 1e-3, good.toString());
+        assertTrue(good.notes().isEmpty(), good.notes().toString());
+        for (int i = 0; i < good.series().get(0).size(); i++) {
+            assertFalse(good.isOutlier(0, i), "member " + i);
+        }
+        SeriesFit bad = SeriesFitter.defaults().fit(R, List.of(moved.build()));
+        assertTrue(bad.isImprobable(), bad.toString());
+        assertTrue(bad.chiSquareProbability().orElseThrow() < 1e-3);
+        // the scale factor is sqrt(chi2 / dof) (its definition) where above 1
+        assertEquals(Math.sqrt(bad.chiSquare() / bad.degreesOfFreedom()), bad.uncertaintyScale(), 1e-12);
+        assertTrue(bad.isOutlier(0, 5), "the moved member n = 30");
+        assertEquals(bad.residualPerCm(0, 5) / 0.002, bad.normalisedResidual(0, 5), 1e-9);
+        String notes = String.join("\n", bad.notes());
+        assertTrue(notes.contains("the fit is improbable") && notes.contains("stated uncertainties assume the model"),
+                notes);
+        // the moved member is named first (the largest normalised residual)
+        assertTrue(notes.contains("the largest first: nS n = 30 (s.csv:30, residual/u = "), notes);
+        assertTrue(notes.contains("chosen by the information criterion from an improbable fit"), notes);
+        // deletion diagnostic: refitted without the moved member alone, the fit is consistent again and
+        // gives back the seeded limit; a fit that is not improbable has none
+        SeriesFit.Deletion without = bad.bestDeletion().orElseThrow();
+        assertEquals(30, without.n());
+        assertEquals("s.csv:30", without.where());
+        assertTrue(without.probability() >= 1e-3, without.toString());
+        assertEquals(LIMIT, without.limitPerCm(), 4 * without.limitUncertaintyPerCm());
+        assertEquals(bad.series().get(0).size() - 1 - 1 - without.terms().get(0), without.degreesOfFreedom());
+        assertTrue(notes.contains("refitted without nS n = 30 (s.csv:30) alone, the fit is consistent"), notes);
+        assertTrue(good.bestDeletion().isEmpty());
+    }
+
+    /**
+     * The chi-square probability is the chi-square distribution's upper tail: for 2 degrees of
+     * freedom it is exp(-chi2 / 2) (closed form); without degrees of freedom there is none, and the
+     * scale factor is 1.
+     */
+    @Test
+    void theChiSquareProbabilityIsTheUpperTail() {
+        SeriesFit fit = SeriesFitter.defaults().withTerms(2).fit(R, List.of(synthetic("S", new Random(11),
+                List.of(0.2965, 0.035), 4, 8, 0.02)));
+        assertEquals(2, fit.degreesOfFreedom());
+        assertEquals(Math.exp(-fit.chiSquare() / 2), fit.chiSquareProbability().orElseThrow(), 1e-12);
+        assertEquals(fit.chiSquare() / 2, fit.reducedChiSquare().orElseThrow(), 1e-15);
+        assertEquals(Math.max(1, Math.sqrt(fit.chiSquare() / 2)), fit.uncertaintyScale(), 1e-15);
+        RydbergSeries.Builder b = RydbergSeries.builder("3S");
+        for (int n = 2; n <= 4; n++) {
+            b.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT, R, List.of(0.2966, 0.038, 0.008), n), 5e-5);
+        }
+        SeriesFit exact = SeriesFitter.defaults().withTerms(3).withLimit(LIMIT, 1e-3).fit(R, List.of(b.build()));
+        assertTrue(exact.chiSquareProbability().isEmpty() && exact.reducedChiSquare().isEmpty());
+        assertFalse(exact.isImprobable());
+        assertEquals(1, exact.uncertaintyScale());
+    }
+
+    /**
+     * Predictions of several n over every series: where one series has no level the others are still
+     * predicted and that one says why; below the lowest member the prediction carries a note.
+     */
+    @Test
+    void predictionsOfSeveralNKeepTheSeriesThatHaveTheMember() {
+        RydbergSeries s = synthetic("nS", new Random(7), List.of(3.1311807, 0.1787), 20, 40, 1e-3);
+        RydbergSeries d = synthetic("nD", new Random(8), List.of(1.3464622, -0.594), 20, 40, 1e-3);
+        SeriesFit fit = SeriesFitter.defaults().withTerms(2, 2).fit(R, List.of(s, d));
+        List<SeriesFit.Prediction> p = fit.predictions(3, 10, 60);
+        assertEquals(6, p.size());
+        // nS at n = 3: 3 - 3.13 < 0, no level (the formula's n* = n - delta must be positive)
+        assertTrue(p.get(0).member().isEmpty());
+        assertTrue(p.get(0).note().orElseThrow().startsWith("series nS has no member at n = 3"), p.get(0).toString());
+        assertTrue(p.get(1).note().orElseThrow().contains("below the lowest member of nS (n = 20)"));
+        assertEquals(fit.predict(0, 10), p.get(1).member().orElseThrow());
+        assertTrue(p.get(2).note().isEmpty() && p.get(2).member().isPresent());
+        // nD at n = 3: 3 - 1.35 > 0, predicted (extrapolated downwards, with the note)
+        assertEquals(fit.predict(1, 3), p.get(3).member().orElseThrow());
+        assertTrue(p.get(3).note().orElseThrow().contains("extrapolated downwards"));
+        assertThrows(IllegalArgumentException.class, () -> fit.predictions(0));
+    }
+
+    /**
+     * The measured defect's uncertainty is the derivative of n - sqrt(R_M / (L - E)) in E times u(E)
+     * (closed form, checked by a central difference); the fitted defect at a real n agrees with the
+     * prediction's at integer n.
+     */
+    @Test
+    void theMeasuredDefectCarriesTheLevelsUncertainty() {
+        RydbergSeries s = synthetic("nS", new Random(9), List.of(3.1311807, 0.1787), 20, 40, 1e-3);
+        SeriesFit fit = SeriesFitter.defaults().withTerms(2).fit(R, List.of(s));
+        double limit = fit.limitPerCm();
+        for (int i = 0; i < s.size(); i++) {
+            double e = s.energyPerCm(i);
+            double h = 1e-3;
+            double slope = (Math.sqrt(R / (limit - e - h)) - Math.sqrt(R / (limit - e + h))) / (2 * h);
+            assertEquals(Math.abs(slope) * 1e-3, fit.measuredDefectUncertainty(0, i).orElseThrow(),
+                    1e-6 * Math.abs(slope) * 1e-3);
+            assertEquals(fit.predict(0, s.n(i)).quantumDefect(), fit.fittedDefect(0, s.n(i)), 1e-13);
+        }
+        assertThrows(IllegalArgumentException.class, () -> fit.fittedDefect(0, 3.0));
+        // a member above the fitted limit has no defect, and the fit says so
+        RydbergSeries.Builder b = RydbergSeries.builder("nS");
+        for (int i = 0; i < s.size(); i++) {
+            b.add(s.n(i), s.energyPerCm(i), s.uncertaintyPerCm(i), "s.csv:" + s.n(i));
+        }
+        b.add(90, LIMIT + 8, 1e-3, "s.csv:90");
+        SeriesFit above = SeriesFitter.defaults().withTerms(2).fit(R, List.of(b.build()));
+        int last = s.size();
+        assertTrue(above.limitPerCm() < LIMIT + 8, above.toString());
+        assertTrue(above.measuredDefectUncertainty(0, last).isEmpty());
+        assertTrue(String.join("\n", above.notes()).contains("at or above the fitted limit"), above.notes().toString());
+        assertTrue(above.isOutlier(0, last) && above.isImprobable(), above.toString());
     }
 
     private static SeriesFit fitted(double[] energy, double[] sigma, double limit) {

@@ -1,0 +1,53 @@
+package org.ritzwerk.refdata;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.List;
+import java.util.stream.Collectors;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The ritzwerk-series file: every bad row is reported with file, line, column and code, none is
+ * dropped. The members are invented (only the reader is checked).
+ */
+class SeriesFilesTest {
+
+    private static final String HEADER = "# ritzwerk-series 1\n# species: Sr-88 I\n# energy-unit: cm-1\n"
+            + "series,n,energy,uncertainty\n";
+
+    /** A row with an empty series name was dropped without a word; it is refused naming line and column. */
+    @Test
+    void anEmptySeriesNameIsRefusedNotDropped() {
+        String text = HEADER + "nS,20,45540.23,0.002\nnS,22,45619.45,0.002\n,45,45900,0.002\n  ,46,45901,0.002\n";
+        DataFileException e = assertThrows(DataFileException.class, () -> SeriesFiles.read(text, "blank.csv"));
+        assertEquals(List.of("7:1 data.missing-value", "8:1 data.missing-value"), e.problems().stream()
+                .map(p -> p.line() + ":" + p.column() + " " + p.code()).collect(Collectors.toList()));
+        assertTrue(e.getMessage().contains("blank.csv:7:1: column series: series needs a name"), e.getMessage());
+    }
+
+    /** The same in JSON: a member without a series name, or with an empty one, is refused. */
+    @Test
+    void anEmptySeriesNameInJsonIsRefused() {
+        String json = "{\"format\": \"ritzwerk-series\", \"formatVersion\": 1, \"species\": \"Sr-88 I\", "
+                + "\"energyUnit\": \"cm-1\", \"members\": [\n"
+                + "{\"series\": \"nS\", \"n\": 20, \"energy\": 45540.23, \"uncertainty\": 0.002},\n"
+                + "{\"series\": \"\", \"n\": 22, \"energy\": 45619.45, \"uncertainty\": 0.002},\n"
+                + "{\"n\": 24, \"energy\": 45676.88, \"uncertainty\": 0.002}]}";
+        DataFileException e = assertThrows(DataFileException.class, () -> SeriesFiles.read(json, "blank.json"));
+        assertEquals(List.of("3 data.missing-value", "4 data.missing-value"),
+                e.problems().stream().map(p -> p.line() + " " + p.code()).collect(Collectors.toList()));
+        assertTrue(e.getMessage().contains("blank.json:4: column series: series needs a name"), e.getMessage());
+    }
+
+    /** A good file reads every row into its series, in the order the names first appear. */
+    @Test
+    void everyRowOfAGoodFileIsRead() {
+        String text = HEADER + "nS,20,45540.23,0.002\nnD,20,45560.1,0.003\nnS,22,45619.45,0.002\n";
+        SeriesFiles.Contents c = SeriesFiles.read(text, "good.csv");
+        assertEquals(List.of("nS", "nD"), c.series().stream().map(s -> s.name()).toList());
+        assertEquals(2, c.series().get(0).size());
+        assertEquals("good.csv:7", c.series().get(0).where(1));
+    }
+}
