@@ -35,4 +35,18 @@ class BuiltInLevelLabelsTest {
         assertTrue(checked > 280, checked + " labels checked");
         assertFalse(context.levelSpecies().isEmpty());
     }
+
+    @Test
+    void everyBuiltInLevelStatesItsUncertaintyTheGroundLevelToo() {
+        // the ground level is the zero of the scale: u = 0 in levels-sr-i (it was empty, and every
+        // Sr I line to the ground had no uncertainty)
+        DataContext context = DataContext.builtIn();
+        for (Species species : context.levelSpecies()) {
+            org.ritzwerk.data.LevelList list = context.levelList(species).orElseThrow();
+            for (int i = 0; i < list.size(); i++) {
+                assertTrue(list.uncertainty(i).isPresent(), list.info().id() + " '" + list.label(i)
+                        + "' has no uncertainty");
+            }
+        }
+    }
 }
