@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
 
@@ -79,5 +80,33 @@ class LevelDesignationTest {
                     && levels.label(lines.lower(i)).equals("5s20s 1S0");
         }
         assertTrue(allowed, "5p20s 1P1 - 5s20s 1S0 (odd - even, J 1 - 0) is allowed");
+    }
+
+    @Test
+    void levelsWhoseLabelsGiveNoParityOrJAreNamedWithTheReason() {
+        // the reviewer's Ne I and Ca I files: a jK label and free text give no parity; a label with a
+        // configuration but neither a J in its term nor a j column gives no J
+        RitzLevels levels = RitzLevels.builder(Species.parse("Ne I"))
+                .add("2p6 1S0", 0, 0, -1)
+                .add("2p5(2P3/2)3s [3/2]2", 134041.84, 0.001, 4)
+                .add("2p5.3s 3P1", 134459.2871, 0.001, -1)
+                .add("mystery level", 140000, 0.01, -1)
+                .add("2p5.3p 3D", 149657.0, 0.001, -1)
+                .build();
+        List<RitzLines.LevelWithoutLines> none = RitzLines.levelsWithoutLines(levels);
+        assertEquals(List.of(new RitzLines.LevelWithoutLines(1, "2p5(2P3/2)3s [3/2]2", "no parity"),
+                new RitzLines.LevelWithoutLines(3, "mystery level", "no parity and no J"),
+                new RitzLines.LevelWithoutLines(4, "2p5.3p 3D", "no J")), none);
+        RitzTransitions lines = RitzLines.defaults().compute(levels);
+        assertEquals(none, lines.levelsWithoutLines(), "the computed lines carry the same report");
+        for (int i = 0; i < lines.size(); i++) {
+            for (RitzLines.LevelWithoutLines level : none) {
+                assertTrue(lines.upper(i) != level.index() && lines.lower(i) != level.index(), level.label());
+            }
+        }
+        // 2p5.3s 3P1 (odd, J = 1) - 2p6 1S0 (even, J = 0) is the one line
+        assertEquals(1, lines.size());
+        assertTrue(RitzLines.levelsWithoutLines(RitzLevels.builder(Species.parse("He I"))
+                .add("1s2 1S0", 0, 0, -1).add("1s2p 1P1", 171134.897, 5e-5, -1).build()).isEmpty());
     }
 }
