@@ -81,10 +81,13 @@ class RitzLinesTest {
             int mult = 1 + 2 * r.nextInt(2);
             String term = mult + TERMS[r.nextInt(4)];
             String parity = r.nextInt(6) == 0 ? "" : (r.nextBoolean() ? "o" : "e");
-            // a configuration of one electron over a closed shell gives the parity; "e" means even, no mark
-            String label = (parity.isEmpty() ? "" : parity.equals("o") ? "5s" + (5 + i) + "p " : "5s" + (6 + i) + "s ")
-                    + term + (parity.equals("o") && r.nextBoolean() ? "o" : "");
-            b.add(label + " #" + i, 1000 * r.nextDouble() * 20, r.nextDouble() * 0.01, twoJ);
+            // a configuration of one electron over a closed shell gives the parity; "e" means even, no mark;
+            // the level's index in the configuration (or in an unreadable first word) keeps labels unique. (The
+            // index used to follow the term as a last word " #i", so no term and no parity was read and no
+            // random set gave a line: see someRandomSetsGiveLines.)
+            String label = (parity.isEmpty() ? "level" + i + " " : parity.equals("o") ? "5s" + (5 + i) + "p "
+                    : "5s" + (6 + i) + "s ") + term + (parity.equals("o") && r.nextBoolean() ? "o" : "");
+            b.add(label, 1000 * r.nextDouble() * 20, r.nextDouble() * 0.01, twoJ);
         }
         return b.build();
     }
@@ -122,6 +125,21 @@ class RitzLinesTest {
                         }
                     }
                 });
+    }
+
+    @Test
+    void someRandomSetsGiveLines() {
+        // the property test above is only as strong as its levels: most random sets must give lines,
+        // and read parities and terms
+        int withLines = 0;
+        int withTerms = 0;
+        for (long seed = 0; seed < 50; seed++) {
+            RitzLevels levels = randomLevels(seed);
+            withLines += RitzLines.defaults().compute(levels).size() > 0 ? 1 : 0;
+            withTerms += levels.designation(0).hasTerm() ? 1 : 0;
+        }
+        assertTrue(withLines > 25, withLines + " of 50 random sets give lines");
+        assertEquals(50, withTerms, "every random level's term is read");
     }
 
     @Test
