@@ -45,7 +45,8 @@ class LevelListNotesCommandTest {
             assertTrue(run.err().contains(" and 3 more"), run.err());
             assertFalse(run.err().contains("2p5.3s 1P1"), "a level that gives lines is not named: " + run.err());
         }
-        CliTest.Run lines = CliTest.run("lines", "--data", data, "--species", "Ne I", "--from", "50 nm", "--to", "100 nm");
+        CliTest.Run lines = CliTest.run("lines", "--data", data, "--species", "Ne I", "--from", "50 nm",
+                "--to", "100 nm");
         // 2p5.3s 1P1 (odd, J = 1, singlet) - 2p6 1S0 (even, J = 0): 1e7 / 134459.2871 = 74.37 nm, the one line
         assertTrue(lines.out().contains("2p5.3s 1P1 - 2p6 1S0"), lines.out());
     }

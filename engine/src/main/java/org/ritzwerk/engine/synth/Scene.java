@@ -1020,7 +1020,8 @@ public final class Scene {
          * common practice), cut off at the list's last level.
          */
         private double levelPartition(RitzLevels levels) {
-            double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100 / (PhysicalConstants.K * temperature);
+            double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100
+                    / (PhysicalConstants.K * temperature);
             double lowest = lowest(levels);
             double partition = 0;
             for (int i = 0; i < levels.size(); i++) {
