@@ -1,10 +1,16 @@
 package org.ritzwerk.cli;
 
+import java.io.PrintWriter;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.stream.Collectors;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.engine.lines.LineSet;
 import org.ritzwerk.engine.lines.LineSources;
 import org.ritzwerk.engine.ritz.RitzLevels;
+import org.ritzwerk.engine.ritz.RitzLines;
 import org.ritzwerk.refdata.DataContext;
 import org.ritzwerk.refdata.DataLines;
 
@@ -14,6 +20,9 @@ import org.ritzwerk.refdata.DataLines;
  * atoms: {@code levels} lists their levels and {@code lines} their Ritz lines.
  */
 final class LevelSets {
+
+    /** How many levels a note names before it gives the count of the rest. */
+    static final int NAMED = 5;
 
     /**
      * The --species values split in two.
@@ -72,5 +81,64 @@ final class LevelSets {
             sources = sources.withLevels(set, DataLines.ritzLines(data, set.species()).withLsRules(lsRules));
         }
         return sources;
+    }
+
+    /**
+     * @param levels level lists
+     * @return their species' notations, e.g. {@code [He I]}
+     */
+    static String names(List<RitzLevels> levels) {
+        return levels.stream().map(l -> l.species().notation()).toList().toString();
+    }
+
+    /**
+     * Notes, one per level list that has them, naming the levels that give no lines because their
+     * labels give no parity or no J ({@link RitzLines#levelsWithoutLines}): the first {@link #NAMED}
+     * by label with the reason, then the count of the rest.
+     *
+     * @param levels level lists
+     * @param err    where the notes go
+     */
+    static void noteLevelsWithoutLines(List<RitzLevels> levels, PrintWriter err) {
+        for (RitzLevels set : levels) {
+            List<RitzLines.LevelWithoutLines> none = RitzLines.levelsWithoutLines(set);
+            if (none.isEmpty()) {
+                continue;
+            }
+            String named = none.stream().limit(NAMED).map(l -> "'" + l.label() + "' (" + l.reason() + ")")
+                    .collect(Collectors.joining(", "));
+            err.println("note: " + set.species().notation() + ": " + none.size() + " of " + set.size()
+                    + " level(s) give no lines, since the selection rules need each level's parity (a configuration"
+                    + " such as 2p5.3s, or an odd mark as in 3Po) and J (in the term or the j column): " + named
+                    + (none.size() > NAMED ? " and " + (none.size() - NAMED) + " more" : ""));
+        }
+        err.flush();
+    }
+
+    /**
+     * Notes, per species, of the level lists' lines in the window that a minimum Einstein A leaves
+     * out because they have no A at all (a level list without a companion line list of A values).
+     *
+     * @param all  the level lists' lines in the window before the minimum A
+     * @param minA the minimum A, s^-1
+     * @param err  where the notes go
+     */
+    static void noteLinesWithoutA(LineSet all, double minA, PrintWriter err) {
+        Map<Species, int[]> counts = new LinkedHashMap<>();
+        for (int i = 0; i < all.size(); i++) {
+            int[] c = counts.computeIfAbsent(all.species(i), k -> new int[2]);
+            c[0]++;
+            if (all.einsteinA(i).isEmpty()) {
+                c[1]++;
+            }
+        }
+        counts.forEach((species, c) -> {
+            if (c[1] > 0) {
+                err.println("note: --min-a " + minA + ": " + c[1] + " of " + c[0] + " " + species.notation()
+                        + " line(s) in the window are left out for having no Einstein A"
+                        + (c[1] == c[0] ? " (no line of its level list has one)" : ""));
+            }
+        });
+        err.flush();
     }
 }

@@ -124,6 +124,13 @@ final class LevelsCommand implements Callable<Integer> {
                 + levelSets.levels().stream().map(l -> l.species().notation()).toList() + " (a level list gives no"
                 + " lifetimes)");
         boolean alkali = !atoms.alkalis().isEmpty();
+        boolean computed = alkali || !atoms.ions().isEmpty();
+        rules.refuseUnless("--n-max", computed, "for species with a level list " + LevelSets.names(levelSets.levels())
+                + " (every listed level is shown; n is not read from the labels)");
+        if (computed && !levelSets.levels().isEmpty() && nMax != null) {
+            spec.commandLine().getErr().println("note: --n-max " + nMax + " limits the computed species' levels, not"
+                    + " those of " + LevelSets.names(levelSets.levels()) + " (every listed level is shown)");
+        }
         int highestN = nMax != null ? nMax
                 : Math.max(4, atoms.alkalis().stream().mapToInt(a -> a.groundState().n() + 2).max().orElse(4));
         rules.refuseUnless("--temperature", lifetimes, "without --lifetimes (it sets the black-body temperature of the"
@@ -179,6 +186,7 @@ final class LevelsCommand implements Callable<Integer> {
         if (temperature != null) {
             query = query.withBlackBodyTemperature(temperature);
         }
+        LevelSets.noteLevelsWithoutLines(levelSets.levels(), spec.commandLine().getErr());
         Table table = new Table(columns, spec.commandLine().getOut(), format);
         Map<Species, List<String>> unsplit = new java.util.LinkedHashMap<>();
         Map<Species, DoubleConsumer> progress = new HashMap<>();

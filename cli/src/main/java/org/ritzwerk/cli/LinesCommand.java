@@ -127,11 +127,24 @@ final class LinesCommand implements Callable<Integer> {
         }
         rules.refuseUnless("--temperature", transition != null, "without --transition (it sets the black-body"
                 + " temperature of the effective lifetimes --transition prints)");
-        rules.refuseUnless("--l-max", !atoms.alkalis().isEmpty(), "for one-electron ions (--species names no alkali"
-                + " atom; every l of a one-electron ion is listed)");
-        rules.refuseUnless("--multiplets", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron"
-                + " ion; alkali lines are listed by fine-structure level)");
-        rules.refuseUnless("--model", !atoms.ions().isEmpty(), "for alkali atoms (--species names no one-electron ion)");
+        String listed = LevelSets.names(levelSets.levels());
+        boolean lists = !levelSets.levels().isEmpty();
+        rules.refuseUnless("--l-max", !atoms.alkalis().isEmpty(), (atoms.ions().isEmpty()
+                ? "for species with a level list " + listed : "for one-electron ions")
+                + " (--species names no alkali atom; every l of a one-electron ion is listed, and every level of a"
+                + " level list)");
+        String notIons = atoms.alkalis().isEmpty() ? "for species with a level list " + listed
+                : lists ? "for alkali atoms and species with a level list " + listed : "for alkali atoms";
+        rules.refuseUnless("--multiplets", !atoms.ions().isEmpty(), notIons + " (--species names no one-electron"
+                + " ion; their lines are listed by level)");
+        rules.refuseUnless("--model", !atoms.ions().isEmpty(), notIons + " (--species names no one-electron ion)");
+        boolean computed = !atoms.ions().isEmpty() || !atoms.alkalis().isEmpty();
+        rules.refuseUnless("--n-max", computed || single, "for species with a level list " + listed
+                + " (their lines are those of every listed level; n is not read from the labels)");
+        if (lists && computed && rules.given("--n-max")) {
+            spec.commandLine().getErr().println("note: --n-max " + nMax + " limits the computed species' lines, not"
+                    + " those of " + listed + " (every listed level gives its lines)");
+        }
         rules.refuseUnless("--intercombination", !levelSets.levels().isEmpty(), "without a species with a level list in"
                 + " --species (it lets through the level lists' lines that the LS-coupling rules forbid)");
         if (hyperfine || fieldTesla != null) {
@@ -172,9 +185,13 @@ final class LinesCommand implements Callable<Integer> {
             alkaliSources = alkaliSources.withAlkali(atom);
         }
         LineQuery.Progress progress = progress();
+        LevelSets.noteLevelsWithoutLines(levelSets.levels(), spec.commandLine().getErr());
+        LineSources listSources = LevelSets.sources(data.context(), levelSets.levels(), !intercombination);
+        if (minA > 0 && lists) {
+            LevelSets.noteLinesWithoutA(query.withMinEinsteinA(0).run(listSources), minA, spec.commandLine().getErr());
+        }
         LineSet lines = LineSet.concat(List.of(query.withMultiplets(multiplets).run(ionSources, progress),
-                query.withMaxL(lMax).run(alkaliSources, progress),
-                query.run(LevelSets.sources(data.context(), levelSets.levels(), !intercombination))))
+                query.withMaxL(lMax).run(alkaliSources, progress), query.run(listSources)))
                 .sortedByFallingFrequency();
         // Lines of level lists carry the Ritz wavelength's standard uncertainty: a column for it then.
         boolean ritz = !levelSets.levels().isEmpty();

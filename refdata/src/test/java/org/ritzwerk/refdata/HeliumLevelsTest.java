@@ -38,6 +38,34 @@ class HeliumLevelsTest {
     private static final Species HE = Species.parse("He I");
 
     @Test
+    void linesToTheGroundCarryTheSharedOffsetOfTheExcitedLevels() {
+        RitzLevels levels = DataLines.levels(DataContext.builtIn(), HE);
+        org.ritzwerk.engine.ritz.RitzTransitions lines = RitzLines.defaults().compute(levels);
+        // The excited levels sit on the theoretical IE(1s2 1S0) of Morton, Wu and Drake (2006),
+        // 5 945 204 290(33) MHz; the measurement of Kandula et al., Phys. Rev. A 84, 062512 (2011),
+        // 5 945 204 212(6) MHz, lies 78 MHz = 78e6 / 29 979 245 800 cm-1 = 2.6e-3 cm-1 away: a line to the
+        // ground must not be stated more precisely than that (it was 7e-5 cm-1, 1.7e-8 nm at 58.43 nm)
+        double offset = 78e6 / 29_979_245_800.0;
+        boolean ground = false;
+        boolean excited = false;
+        for (int i = 0; i < lines.size(); i++) {
+            String upper = levels.label(lines.upper(i));
+            String lower = levels.label(lines.lower(i));
+            double u = lines.wavenumberUncertaintyPerCm(i).orElseThrow();
+            if (lower.equals("1s2 1S0")) {
+                assertTrue(u >= offset, upper + " - 1s2 1S0: u " + u + " cm-1 below the offset " + offset);
+                ground |= upper.equals("1s2p 1P1");
+            }
+            if (upper.equals("1s3d 1D2") && lower.equals("1s2p 1P1")) {
+                // both n <= 4 levels at half a unit of their last digit (5e-5 cm-1): the offset cancels
+                assertEquals(Math.sqrt(2) * 5e-5, u, 1e-12, "667.8 nm");
+                excited = true;
+            }
+        }
+        assertTrue(ground && excited, "58.43 nm and 667.8 nm lines found");
+    }
+
+    @Test
     void heliumIsASpeciesWithLinesFromItsLevels() {
         DataContext context = DataContext.builtIn();
         assertTrue(context.levelSpecies().contains(HE), context.levelSpecies().toString());

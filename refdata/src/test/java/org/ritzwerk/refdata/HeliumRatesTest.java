@@ -173,9 +173,11 @@ class HeliumRatesTest {
      * With an electron density, He I and He II come from one Saha balance: at 20,000 K and
      * 1e22 m^-3, n(He II) / n(He I) = 1.74066733 (mpmath 1.3.0 at 30 digits with scipy 1.17.1's
      * constants: 2 U(He II) / U(He I) (2 pi m_e k T / h^2)^(3/2) / n_e exp(-chi / kT), U(He I) = 1,
-     * U(He II) = 2, chi = 198310.66637 cm^-1; He III is 5e-11 of He II there). So the photon ratio
-     * of a He I line to a He II line with the density is the ratio without it times
-     * 1 / 1.74066733; without a density both stages carry their abundance.
+     * U(He II) = 2, chi = 198310.66637 cm^-1; He III is 5e-11 of He II there). He I's partition
+     * function is now the level list's Boltzmann sum in the Saha step too (as in the Boltzmann step),
+     * U(He I) = 1.0003556 at 20,000 K (summed below), and n(He II) / n(He I) scales as 1 / U(He I).
+     * So the photon ratio of a He I line to a He II line with the density is the ratio without it
+     * times U(He I) / 1.74066733; without a density both stages carry their abundance.
      */
     @Test
     void heliumStagesShareOneSahaBalance() {
@@ -205,7 +207,66 @@ class HeliumRatesTest {
             ratio[k] = lines.photons(neutral) / lines.photons(ionised);
             notes = scene.notes();
         }
-        assertEquals(1 / 1.74066733, ratio[1] / ratio[0], 1e-6);
+        double partition = neutralPartition(levels, 20_000);
+        assertEquals(1.0003556, partition, 1e-7, "the list's sum at 20,000 K");
+        assertEquals(partition / 1.74066733, ratio[1] / ratio[0], 1e-6);
         assertTrue(notes.stream().noneMatch(n -> n.contains("no ionisation balance")), notes.toString());
+    }
+
+    /** He I's partition function from the list: sum of (2J + 1) exp(-E / kT) (Boltzmann's law, common practice). */
+    private static double neutralPartition(RitzLevels levels, double kelvin) {
+        double hcOverK = PhysicalConstants.H * PhysicalConstants.C * 100 / PhysicalConstants.K;   // cm K
+        double sum = 0;
+        for (int i = 0; i < levels.size(); i++) {
+            sum += (levels.designation(i).twoJ() + 1) * Math.exp(-levels.energyPerCm(i) * hcOverK / kelvin);
+        }
+        return sum;
+    }
+
+    /**
+     * The reviewer's hot scene, He I and He II at 50,000 K and 1e22 m^-3: the photon ratio of He I
+     * 587.6 nm to He II 468.6 nm with the density, over the ratio without it, is n(He I) / n(He II)
+     * from Saha's equation (common practice; e.g. Griem, Principles of Plasma Spectroscopy (1997)),
+     * n(He II) n_e / n(He I) = 2 U(He II) / U(He I) (2 pi m_e k T / h^2)^(3/2) exp(-chi / kT), computed
+     * here in closed form with the project's constants, chi = 198 310.666 37 cm^-1 (Kandula et al.,
+     * Phys. Rev. A 84, 062512 (2011)), U(He I) the list's sum (2.2168 at 50,000 K, the same the
+     * Boltzmann step divides by) and U(He II) the balance's own hydrogen-like sum to n = 30 (tested
+     * in the plasma package). With U(He I) = 1 in the Saha step only, the tool was low by U(He I).
+     */
+    @Test
+    void theSahaAndBoltzmannStepsShareHeliumsPartitionFunction() {
+        DataContext context = DataContext.builtIn();
+        RitzLevels levels = DataLines.levels(context, HE);
+        RitzLines job = DataLines.ritzLines(context, HE);
+        Species heII = Species.parse("He II");
+        HydrogenLikeModel ion = HydrogenLikeModel.of(context.nucleus(heII), Tier.QED);
+        double kelvin = 50_000;
+        double density = 1e22;
+        double[] ratio = new double[2];
+        for (int k = 0; k < 2; k++) {
+            Scene.Builder b = Scene.builder(PixelGrid.linear(460, 600, 20_000)).temperature(kelvin).nMax(30)
+                    .levels(levels, job, 1, context.nucleus(HE)).hydrogenLike(heII, ion, 1);
+            if (k == 1) {
+                b.electronDensity(density);
+            }
+            Scene.Lines lines = b.build().lines();
+            int neutral = -1;
+            int ionised = -1;
+            for (int i = 0; i < lines.size(); i++) {
+                neutral = lines.label(i).equals("He I 1s3d 3D3 - 1s2p 3P2") ? i : neutral;
+                ionised = lines.label(i).endsWith("(4-3)") ? i : ionised;
+            }
+            assertTrue(neutral >= 0 && ionised >= 0, "He I 587.6 nm and He II 468.6 nm in the scene");
+            ratio[k] = lines.photons(neutral) / lines.photons(ionised);
+        }
+        double partitionI = neutralPartition(levels, kelvin);
+        assertEquals(2.2168, partitionI, 1e-4, "the list's sum at 50,000 K (the reviewer's figure)");
+        double partitionII = org.ritzwerk.engine.plasma.IonisationBalance.hydrogenLikePartition(ion, kelvin, 30);
+        double kT = PhysicalConstants.K * kelvin;
+        double h = PhysicalConstants.H;
+        double thermal = Math.pow(2 * Math.PI * PhysicalConstants.ELECTRON_MASS.value() * kT / (h * h), 1.5);
+        double chi = 198_310.66637e2 * h * PhysicalConstants.C;
+        double neutralOverIon = density * partitionI / (2 * partitionII * thermal * Math.exp(-chi / kT));
+        assertEquals(neutralOverIon, ratio[1] / ratio[0], 1e-9 * neutralOverIon);
     }
 }

@@ -16,10 +16,14 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
  * <p>For hydrogen and helium, {@link #hydrogen} and {@link #helium} take the one-electron
  * stages' ionisation energies and partition functions from a {@link HydrogenLikeModel}, the
  * partition function summed over n = 1 .. nMax ({@link #hydrogenLikePartition}). Neutral
- * helium's partition function is taken as 1, its 1s^2 ground state alone: its first excited
- * level, 1s2s 3S1, lies 19.82 eV up (159 856 cm^-1, NIST Atomic Spectra Database He I levels;
- * from memory, used only for this bound: 3 exp(-19.82 eV / kT) = 1.4e-3 at 30 000 K), so the
- * neglected part is below 0.2 % up to 30 000 K.
+ * helium's partition function U_I is the caller's ({@link #helium(HydrogenLikeModel, double,
+ * double, int, double)}: a synthetic scene with He I levels passes the Boltzmann sum over the same
+ * levels it populates, so that the Saha and Boltzmann steps agree), or 1, the 1s^2 ground state
+ * alone ({@link #helium(HydrogenLikeModel, double, double, int)}). The built-in He I level list
+ * (n <= 10) sums to 1.0004 at 20 000 K, 1.005 at 25 000 K, 1.032 at 30 000 K, 1.31 at 40 000 K
+ * and 2.22 at 50 000 K, so U_I = 1 is good to 0.5 % up to 25 000 K only; above that the sum
+ * itself depends on where the levels are cut off (each n adds about 4 n^2 states just below the
+ * limit), which stands in for the lowering of the ionisation potential that is not applied.
  *
  * <p>Stateless and thread-safe.
  */
@@ -172,10 +176,31 @@ public final class IonisationBalance {
      * @return fractions of He I, He II and He III
      */
     public static double[] helium(HydrogenLikeModel heliumIon, double temperature, double electronDensity, int nMax) {
+        return helium(heliumIon, temperature, electronDensity, nMax, 1);
+    }
+
+    /**
+     * The helium balance with neutral helium's partition function given, e.g. the Boltzmann sum
+     * over a He I level list at the same temperature (the one the line intensities use).
+     *
+     * @param heliumIon        the He II ion (any helium isotope)
+     * @param temperature      temperature in K
+     * @param electronDensity  electron density in m^-3
+     * @param nMax             cutoff of the He II partition function
+     * @param neutralPartition He I's partition function U_I, at least 1 (its ground level's weight)
+     * @return fractions of He I, He II and He III
+     * @throws IllegalArgumentException for a partition function below 1 or not finite
+     */
+    public static double[] helium(HydrogenLikeModel heliumIon, double temperature, double electronDensity, int nMax,
+            double neutralPartition) {
         requireZ(heliumIon, 2);
+        if (!(neutralPartition >= 1) || Double.isInfinite(neutralPartition)) {
+            throw new IllegalArgumentException("He I's partition function must be finite and at least 1 (its ground"
+                    + " level's weight), got " + neutralPartition);
+        }
         return fractions(temperature, electronDensity,
                 new double[] {HELIUM_I_IONISATION_ENERGY, -heliumIon.energy(1, 0, 1)},
-                new double[] {1, hydrogenLikePartition(heliumIon, temperature, nMax), 1});
+                new double[] {neutralPartition, hydrogenLikePartition(heliumIon, temperature, nMax), 1});
     }
 
     private static void requireZ(HydrogenLikeModel model, int z) {

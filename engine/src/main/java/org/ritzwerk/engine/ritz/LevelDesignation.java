@@ -1,6 +1,5 @@
 package org.ritzwerk.engine.ritz;
 
-import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
@@ -17,7 +16,12 @@ import java.util.regex.Pattern;
  *     {@code 3/2}); the letters are S P D F G H I K L M N O Q R T U V (no J);</li>
  * <li>the configuration is the rest: orbitals n l with an optional occupation ({@code 1s2},
  *     {@code 2p6}, {@code 5s5p}, separated or not by dots or blanks); its parity is
- *     {@code (-1)^(sum of l times occupation)};</li>
+ *     {@code (-1)^(sum of l times occupation)}. Only physically valid readings count: n from 1
+ *     without a leading zero, l below n, an occupation from 1 to 2(2l + 1) (the Pauli principle;
+ *     common practice). Where the digits run together, every valid reading is tried: {@code 5p20s}
+ *     is 5p 20s (5p2 0s has n = 0), {@code 1s22s} is 1s2 2s or 1s 22s (both even); where two valid
+ *     readings give different parities ({@code 2p63s}: 2p6 3s, even, or 2p 63s, odd) the parity is
+ *     not known;</li>
  * <li>the parity is the term's odd mark where it has one, else the configuration's; a term without a
  *     mark and without a configuration gives no parity (a label such as {@code 3P1} alone may be
  *     either);</li>
@@ -35,8 +39,11 @@ public record LevelDesignation(int parity, int multiplicity, int l, int twoJ) {
     private static final String TERM_LETTERS = "SPDFGHIKLMNOQRTUV";
     private static final String ORBITAL_LETTERS = "spdfghik";
     private static final Pattern TERM = Pattern.compile("(\\d{1,2})([SPDFGHIKLMNOQRTUV])(o|\\*|\u00b0)?(\\d{1,3}(?:/2)?)?");
-    private static final Pattern ORBITAL = Pattern.compile("(\\d{1,2})([spdfghik])(\\d{1,2}(?![spdfghik]))?");
-    private static final Pattern CONFIGURATION = Pattern.compile("((\\d{1,2})([spdfghik])(\\d{1,2}(?![spdfghik]))?[.\\s]*)+");
+    /** The most digits of an n (Rydberg levels up to n = 999) and of an occupation (14, a full f shell). */
+    private static final int N_DIGITS = 3;
+    private static final int OCCUPATION_DIGITS = 2;
+    private static final int EVEN = 1;
+    private static final int ODD = 2;
 
     /**
      * Validates the values.
@@ -83,22 +90,85 @@ public record LevelDesignation(int parity, int multiplicity, int l, int twoJ) {
             }
             configuration = blank < 0 ? "" : text.substring(0, blank).strip();
         }
-        if (parity == 0 && !configuration.isEmpty()
-                && CONFIGURATION.matcher(configuration.toLowerCase(Locale.ROOT)).matches()
-                && configuration.equals(configuration.toLowerCase(Locale.ROOT))) {
-            int sum = 0;
-            Matcher orbital = ORBITAL.matcher(configuration);
-            while (orbital.find()) {
-                int occupation = orbital.group(3) == null ? 1 : Integer.parseInt(orbital.group(3));
-                sum += ORBITAL_LETTERS.indexOf(orbital.group(2).charAt(0)) * occupation;
-            }
-            parity = sum % 2 == 0 ? 1 : -1;
+        if (parity == 0 && !configuration.isEmpty()) {
+            parity = configurationParity(configuration);
         }
         if (labelTwoJ >= 0 && twoJ >= 0 && labelTwoJ != twoJ) {
             throw new IllegalArgumentException("level '" + label + "' has J = " + half(labelTwoJ)
                     + " in its label but J = " + half(twoJ) + " beside it");
         }
         return new LevelDesignation(parity, multiplicity, l, labelTwoJ >= 0 ? labelTwoJ : twoJ);
+    }
+
+    /**
+     * The parity of a configuration written as in the class comment, from its valid readings only.
+     *
+     * @param configuration orbitals such as {@code 1s2.2s}, {@code 5s5p} or {@code 5p20s}, in lower case
+     * @return +1 (even) or -1 (odd) where every valid reading gives that parity, 0 where there is no
+     *         valid reading or two valid readings disagree
+     */
+    static int configurationParity(String configuration) {
+        int possible = EVEN;
+        for (String word : configuration.strip().split("[.\\s]+")) {
+            int own = wordParities(word);
+            if (own == 0) {
+                return 0;
+            }
+            int next = 0;
+            for (int a : new int[] {EVEN, ODD}) {
+                for (int b : new int[] {EVEN, ODD}) {
+                    if ((possible & a) != 0 && (own & b) != 0) {
+                        next |= a == b ? EVEN : ODD;
+                    }
+                }
+            }
+            possible = next;
+        }
+        return possible == EVEN ? 1 : possible == ODD ? -1 : 0;
+    }
+
+    /**
+     * The parities of every valid reading of one word of orbitals written together, by dynamic
+     * programming over the positions: {@code reach[p]} holds the parities (bits {@link #EVEN},
+     * {@link #ODD}) of the valid readings of the first p characters.
+     */
+    private static int wordParities(String word) {
+        int length = word.length();
+        int[] reach = new int[length + 1];
+        reach[0] = EVEN;
+        for (int p = 0; p < length; p++) {
+            if (reach[p] == 0 || word.charAt(p) < '1' || word.charAt(p) > '9') {
+                continue;
+            }
+            for (int nEnd = p + 1; nEnd <= Math.min(length - 1, p + N_DIGITS) && isDigit(word, nEnd - 1); nEnd++) {
+                int n = Integer.parseInt(word.substring(p, nEnd));
+                int l = ORBITAL_LETTERS.indexOf(word.charAt(nEnd));
+                if (l < 0 || l >= n) {
+                    continue;
+                }
+                int after = nEnd + 1;
+                reach[after] |= l % 2 == 0 ? reach[p] : shift(reach[p]);
+                if (after < length && word.charAt(after) >= '1' && word.charAt(after) <= '9') {
+                    for (int end = after + 1; end <= Math.min(length, after + OCCUPATION_DIGITS)
+                            && isDigit(word, end - 1); end++) {
+                        int occupation = Integer.parseInt(word.substring(after, end));
+                        if (occupation <= 2 * (2 * l + 1)) {
+                            reach[end] |= l * occupation % 2 == 0 ? reach[p] : shift(reach[p]);
+                        }
+                    }
+                }
+            }
+        }
+        return reach[length];
+    }
+
+    /** @return the parities with even and odd swapped (one more odd electron) */
+    private static int shift(int parities) {
+        return ((parities & EVEN) != 0 ? ODD : 0) | ((parities & ODD) != 0 ? EVEN : 0);
+    }
+
+    private static boolean isDigit(String word, int i) {
+        return word.charAt(i) >= '0' && word.charAt(i) <= '9';
     }
 
     /** @return whether the parity is known */

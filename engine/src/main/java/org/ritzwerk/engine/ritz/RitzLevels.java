@@ -19,7 +19,8 @@ import org.ritzwerk.quantity.Unit;
 /**
  * The energy levels of one species that lines are computed from by the Ritz combination
  * principle: per level a label, its energy above the ground level (cm^-1), its standard uncertainty
- * where known, and what the label says about parity, term and J ({@link LevelDesignation}); and,
+ * where known (a level at energy 0 without one, the zero of the scale, is exact: 0), and what the
+ * label says about parity, term and J ({@link LevelDesignation}); and,
  * where given, the covariance of the energies (cm^-2), e.g. from a level optimisation
  * ({@link LevelOptimum#levels}), so that the uncertainties of line wavenumbers take the
  * correlations into account.
@@ -320,7 +321,10 @@ public final class RitzLevels {
         /**
          * @param label   the level's label (see {@link LevelDesignation}), not blank, unique
          * @param perCm   its energy above the ground level, cm^-1, finite, not negative
-         * @param sigmaCm its standard uncertainty, cm^-1, finite and not negative, or NaN when not known
+         * @param sigmaCm its standard uncertainty, cm^-1, finite and not negative, or NaN when not known;
+         *                a level at energy exactly 0 given no uncertainty is the zero of the scale (the
+         *                reference level the other energies are measured from), exact by definition, so
+         *                it gets 0
          * @param twoJ    twice J, or -1 to take J from the label (or leave it unknown)
          * @return this builder
          * @throws IllegalArgumentException naming the level and the bad value
@@ -339,7 +343,7 @@ public final class RitzLevels {
             }
             designations.add(LevelDesignation.parse(label, twoJ));
             labels.add(label);
-            values.add(new double[] {perCm, sigmaCm});
+            values.add(new double[] {perCm, perCm == 0 && Double.isNaN(sigmaCm) ? 0 : sigmaCm});
             return this;
         }
 

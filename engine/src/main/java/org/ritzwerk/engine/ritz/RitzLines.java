@@ -1,6 +1,8 @@
 package org.ritzwerk.engine.ritz;
 
+import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
@@ -21,7 +23,8 @@ import org.ritzwerk.data.LineList;
  * {@code J = 0 -> 0}. With {@link #withLsRules(boolean) LS rules} on, and where both labels give a
  * term, also {@code Delta S = 0}, {@code Delta L = 0, +-1}, not {@code L = 0 -> 0}. A pair whose
  * parity or J is not known for both levels is left out: a line is given only where the rules are
- * known to allow it. Two levels at the same energy give no line.
+ * known to allow it; {@link #levelsWithoutLines} names the levels left out so, and why. Two levels
+ * at the same energy give no line.
  *
  * <h2>Transition probabilities</h2>
  * Where a companion line list ({@link #withEinsteinA(LineList)}) gives A for a pair of level labels
@@ -35,6 +38,23 @@ import org.ritzwerk.data.LineList;
  * <p>Immutable and thread-safe; configured with {@code withX} methods.
  */
 public final class RitzLines {
+
+    /**
+     * A level the selection rules cannot be applied to, so that it gives no line: its label gives
+     * no parity (no readable configuration and no odd mark: a jK or jj label such as
+     * {@code 2p5(2P3/2)3s [3/2]2}, or free text), or neither its label nor its j column gives J.
+     *
+     * @param index  the level's index in its {@link RitzLevels}
+     * @param label  its label
+     * @param reason why, in words: {@code "no parity"}, {@code "no J"} or {@code "no parity and no J"}
+     */
+    public record LevelWithoutLines(int index, String label, String reason) {
+        /** Checks the fields. */
+        public LevelWithoutLines {
+            Objects.requireNonNull(label, "label");
+            Objects.requireNonNull(reason, "reason");
+        }
+    }
 
     private static final RitzLines DEFAULTS = new RitzLines(false, 0, Double.POSITIVE_INFINITY, Map.of());
 
@@ -116,12 +136,33 @@ public final class RitzLines {
     }
 
     /**
+     * The levels that give no line whatever their partners, since the rules need a parity and a J
+     * that their labels (and j columns) do not give. They are listed by the {@code lines} and
+     * {@code levels} commands in a note, never dropped silently.
+     *
      * @param levels the levels
-     * @return every allowed line in the window, by rising wavenumber
+     * @return those levels, in the levels' order (empty when every level gives its parity and J)
+     */
+    public static List<LevelWithoutLines> levelsWithoutLines(RitzLevels levels) {
+        List<LevelWithoutLines> found = new ArrayList<>();
+        for (int i = 0; i < levels.size(); i++) {
+            LevelDesignation d = levels.designation(i);
+            if (!d.hasParity() || !d.hasJ()) {
+                found.add(new LevelWithoutLines(i, levels.label(i), !d.hasParity() && !d.hasJ() ? "no parity and no J"
+                        : d.hasParity() ? "no J" : "no parity"));
+            }
+        }
+        return List.copyOf(found);
+    }
+
+    /**
+     * @param levels the levels
+     * @return every allowed line in the window, by rising wavenumber, with the levels that give no
+     *         line for want of a parity or J ({@link RitzTransitions#levelsWithoutLines()})
      */
     public RitzTransitions compute(RitzLevels levels) {
         Objects.requireNonNull(levels, "levels");
-        RitzTransitions.Builder b = new RitzTransitions.Builder(levels);
+        RitzTransitions.Builder b = new RitzTransitions.Builder(levels, levelsWithoutLines(levels));
         int n = levels.size();
         for (int i = 0; i < n; i++) {
             for (int j = 0; j < n; j++) {

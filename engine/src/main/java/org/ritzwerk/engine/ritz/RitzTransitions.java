@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.ritz;
 
 import java.util.Arrays;
+import java.util.List;
 import java.util.OptionalDouble;
 import org.ritzwerk.medium.Medium;
 
@@ -22,6 +23,7 @@ public final class RitzTransitions {
     private final double[] sigma;
     private final double[] einsteinA;
     private final double[] oscillatorStrength;
+    private final List<RitzLines.LevelWithoutLines> withoutLines;
 
     private RitzTransitions(Builder b) {
         Integer[] order = new Integer[b.size];
@@ -30,6 +32,7 @@ public final class RitzTransitions {
         }
         Arrays.sort(order, (x, y) -> Double.compare(b.wavenumber[x], b.wavenumber[y]));
         levels = b.levels;
+        withoutLines = b.withoutLines;
         upper = new int[b.size];
         lower = new int[b.size];
         wavenumber = new double[b.size];
@@ -50,6 +53,14 @@ public final class RitzTransitions {
     /** @return the levels the lines come from */
     public RitzLevels levels() {
         return levels;
+    }
+
+    /**
+     * @return the levels that give no line for want of a parity or a J (whatever the window), in
+     *         the levels' order ({@link RitzLines#levelsWithoutLines})
+     */
+    public List<RitzLines.LevelWithoutLines> levelsWithoutLines() {
+        return withoutLines;
     }
 
     /** @return the number of lines */
@@ -146,6 +157,7 @@ public final class RitzTransitions {
     /** Collects lines for {@link RitzLines}. */
     static final class Builder {
         private final RitzLevels levels;
+        private final List<RitzLines.LevelWithoutLines> withoutLines;
         private int size;
         private int[] upper = new int[16];
         private int[] lower = new int[16];
@@ -154,8 +166,9 @@ public final class RitzTransitions {
         private double[] einsteinA = new double[16];
         private double[] oscillatorStrength = new double[16];
 
-        Builder(RitzLevels levels) {
+        Builder(RitzLevels levels, List<RitzLines.LevelWithoutLines> withoutLines) {
             this.levels = levels;
+            this.withoutLines = withoutLines;
         }
 
         void add(int u, int l, double perCm, double sigmaPerCm, double a, double f) {

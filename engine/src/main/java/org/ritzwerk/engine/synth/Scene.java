@@ -51,7 +51,9 @@ import org.ritzwerk.quantity.Unit;
  * model's levels, populated by Boltzmann's law over the same levels.</li>
  * <li>Any atom with a level list ({@link Builder#levels}, He I say): its Ritz lines that carry an
  * Einstein A, populated by Boltzmann's law over the list's levels; with an electron density,
- * He I's abundance is weighted by its Saha fraction in the helium balance, as He II's is.</li>
+ * He I's abundance is weighted by its Saha fraction in the helium balance, as He II's is, with
+ * the list's Boltzmann sum as He I's partition function in both steps (and in He II's fraction),
+ * cut off at the list's last level.</li>
  * <li>Widths: Doppler (Gaussian, from the temperature and the emitter's mass), the
  * instrument's Gaussian response, and a Lorentzian that is the sum of a collisional FWHM given
  * by the caller, natural widths when asked ({@link Builder#naturalWidths}: each shell's total
@@ -482,8 +484,11 @@ public final class Scene {
          * (2 J + 1) exp(-E / kT) over the levels whose J is known, energies above the list's
          * lowest level (Boltzmann's law, optically thin, as for the alkali atoms). With an
          * electron density, neutral helium's abundance is weighted by its Saha fraction in the
-         * helium balance ({@link IonisationBalance#helium}, the He II ion made from this nucleus,
-         * or the scene's He II model of the same nucleus), as He II's is; other species get no
+         * helium balance ({@link IonisationBalance#helium(HydrogenLikeModel, double, double, int, double)},
+         * the He II ion made from this nucleus, or the scene's He II model of the same nucleus), as
+         * He II's is, with U as He I's partition function there too (the Saha and Boltzmann steps
+         * agree; U is cut off at the list's levels, n <= 10 for the built-in He I, which
+         * underestimates it at the highest temperatures); other species get no
          * ionisation balance (a note says so). Lines without A are left out. Labelled
          * {@code He I 1s3d 3D3 - 1s2p 3P2}.
          *
@@ -972,18 +977,9 @@ public final class Scene {
             RitzTransitions lines = e.lines();
             RitzLevels levels = lines.levels();
             double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100 / (PhysicalConstants.K * temperature);
-            double lowest = Double.POSITIVE_INFINITY;
-            for (int i = 0; i < levels.size(); i++) {
-                lowest = Math.min(lowest, levels.energyPerCm(i));
-            }
-            double partition = 0;
-            for (int i = 0; i < levels.size(); i++) {
-                if (levels.designation(i).hasJ()) {
-                    partition += (levels.designation(i).twoJ() + 1)
-                            * Math.exp(-(levels.energyPerCm(i) - lowest) * hcPerCmOverKt);
-                }
-            }
-            double number = e.abundance() * levelStageFraction(e, notes);
+            double lowest = lowest(levels);
+            double partition = levelPartition(levels);
+            double number = e.abundance() * levelStageFraction(e, partition, notes);
             double beta = Math.abs(velocity) / PhysicalConstants.C;
             double loNm = grid.lowest() * 0.98 * (1 - beta);
             double hiNm = grid.highest() * 1.02 * (1 + beta);
@@ -1009,13 +1005,58 @@ public final class Scene {
                     e.massKg(), i -> kept[i]);
         }
 
+        /** The lowest energy of a level list, cm^-1. */
+        private static double lowest(RitzLevels levels) {
+            double lowest = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < levels.size(); i++) {
+                lowest = Math.min(lowest, levels.energyPerCm(i));
+            }
+            return lowest;
+        }
+
+        /**
+         * The partition function of a level list at the scene's temperature: the sum of
+         * (2J + 1) exp(-(E - E_lowest) / kT) over the levels whose J is known (Boltzmann's law,
+         * common practice), cut off at the list's last level.
+         */
+        private double levelPartition(RitzLevels levels) {
+            double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100
+                    / (PhysicalConstants.K * temperature);
+            double lowest = lowest(levels);
+            double partition = 0;
+            for (int i = 0; i < levels.size(); i++) {
+                if (levels.designation(i).hasJ()) {
+                    partition += (levels.designation(i).twoJ() + 1)
+                            * Math.exp(-(levels.energyPerCm(i) - lowest) * hcPerCmOverKt);
+                }
+            }
+            return partition;
+        }
+
+        /**
+         * He I's partition function for the helium balance of this nucleus: the Boltzmann sum over
+         * the scene's He I level list of the same nucleus (the one its lines are populated with),
+         * or 1, the ground level alone, when the scene has none.
+         */
+        private double heliumNeutralPartition(Nucleus nucleus) {
+            for (Object entry : lists) {
+                if (entry instanceof LevelEmitter e && e.nucleus().equals(nucleus)) {
+                    Species species = e.lines().levels().species();
+                    if (species.z() == 2 && species.charge() == 0) {
+                        return Math.max(1, levelPartition(e.lines().levels()));
+                    }
+                }
+            }
+            return 1;
+        }
+
         /**
          * Neutral helium's Saha fraction in the helium balance, or 1 when there is no density or
          * no balance for the species (noted). The He II ion of the balance is the scene's He II
          * model of the same nucleus, so that both stages share one balance, or else one made from
-         * the nucleus.
+         * the nucleus; He I's partition function in it is the one its lines are populated with.
          */
-        private double levelStageFraction(LevelEmitter e, List<String> notes) {
+        private double levelStageFraction(LevelEmitter e, double partition, List<String> notes) {
             if (Double.isNaN(electronDensity)) {
                 return 1;
             }
@@ -1034,7 +1075,7 @@ public final class Scene {
             if (ion == null) {
                 ion = HydrogenLikeModel.of(e.nucleus(), Tier.DIRAC);
             }
-            return IonisationBalance.helium(ion, temperature, electronDensity, nMax)[0];
+            return IonisationBalance.helium(ion, temperature, electronDensity, nMax, Math.max(1, partition))[0];
         }
 
         /**
@@ -1217,7 +1258,8 @@ public final class Scene {
             }
             return switch (ion.model.nucleus().z()) {
                 case 1 -> IonisationBalance.hydrogen(ion.model, temperature, electronDensity, nMax)[0];
-                case 2 -> IonisationBalance.helium(ion.model, temperature, electronDensity, nMax)[1];
+                case 2 -> IonisationBalance.helium(ion.model, temperature, electronDensity, nMax,
+                        heliumNeutralPartition(ion.model.nucleus()))[1];
                 default -> {
                     notes.add(ion.species.notation() + ": no ionisation balance for Z = " + ion.model.nucleus().z()
                             + "; its abundance is taken as the ion's own");

@@ -70,6 +70,17 @@ class IonisationBalanceTest {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> IonisationBalance.helium(hydrogen, 30_000, 1e22, 20));
         assertTrue(e.getMessage().contains("Z = 2"), e.getMessage());
+        // He I's partition function given: Saha's n(He II) / n(He I) is proportional to 1 / U(He I)
+        // (common practice), so U = 2.2168 (the built-in list's sum at 50,000 K) divides it by that
+        HydrogenLikeModel heII = HydrogenLikeModel.of(alpha, Tier.BOHR);
+        double[] one = IonisationBalance.helium(heII, 50_000, 1e22, 20, 1);
+        double[] listed = IonisationBalance.helium(heII, 50_000, 1e22, 20, 2.2168);
+        assertEquals(Arrays.toString(IonisationBalance.helium(heII, 50_000, 1e22, 20)), Arrays.toString(one));
+        assertEquals(one[1] / one[0] / 2.2168, listed[1] / listed[0], 1e-12 * one[1] / one[0]);
+        assertEquals(one[2] / one[1], listed[2] / listed[1], 1e-12 * one[2] / one[1], "He III / He II unchanged");
+        IllegalArgumentException low = assertThrows(IllegalArgumentException.class,
+                () -> IonisationBalance.helium(heII, 50_000, 1e22, 20, 0.5));
+        assertTrue(low.getMessage().contains("at least 1") && low.getMessage().contains("0.5"), low.getMessage());
     }
 
     @Test

@@ -49,6 +49,28 @@ class RitzLinesTest {
         assertTrue(e.getMessage().contains("'1s2p 3P1'") && e.getMessage().contains("J = 2"), e.getMessage());
     }
 
+    @Test
+    void theZeroOfTheScaleIsExactWhenNoUncertaintyIsGiven() {
+        // Sr I 5s2 1S0 at 0 without an uncertainty, 5s5p 1P1 21698.452(5) cm-1 (levels-sr-i): the line
+        // between them has u = 0.005 cm-1, the upper level's alone (the zero is exact by definition)
+        RitzLevels levels = RitzLevels.builder(X).add("5s2 1S0", 0, Double.NaN, -1)
+                .add("5s5p 1P1", 21698.452, 0.005, -1).add("5s6s 1S0", 30591.825, Double.NaN, -1).build();
+        assertEquals(0.0, levels.uncertaintyPerCm(0).orElseThrow(), "the zero of the scale");
+        assertTrue(levels.uncertaintyPerCm(2).isEmpty(), "another level without u stays unknown");
+        RitzTransitions lines = RitzLines.defaults().compute(levels);
+        int ground = -1;
+        for (int i = 0; i < lines.size(); i++) {
+            if (lines.lower(i) == 0) {
+                ground = i;
+            }
+        }
+        assertTrue(ground >= 0, "5s5p 1P1 - 5s2 1S0 is listed");
+        assertEquals(0.005, lines.wavenumberUncertaintyPerCm(ground).orElseThrow(), 1e-15);
+        // 460.73 nm: u(lambda) = u(sigma) / sigma^2 = 0.005 / 21698.452^2 cm = 1.06e-4 nm
+        assertEquals(0.005 / 21698.452 / 21698.452 * 1e7, lines.wavelengthUncertaintyNm(ground, Medium.vacuum())
+                .orElseThrow(), 1e-12);
+    }
+
     /** Random levels: parity, J, term drawn at random, some of them unknown. */
     private static RitzLevels randomLevels(long seed) {
         Random r = new Random(seed);
@@ -59,10 +81,13 @@ class RitzLinesTest {
             int mult = 1 + 2 * r.nextInt(2);
             String term = mult + TERMS[r.nextInt(4)];
             String parity = r.nextInt(6) == 0 ? "" : (r.nextBoolean() ? "o" : "e");
-            // a configuration of one electron over a closed shell gives the parity; "e" means even, no mark
-            String label = (parity.isEmpty() ? "" : parity.equals("o") ? "5s" + (5 + i) + "p " : "5s" + (6 + i) + "s ")
-                    + term + (parity.equals("o") && r.nextBoolean() ? "o" : "");
-            b.add(label + " #" + i, 1000 * r.nextDouble() * 20, r.nextDouble() * 0.01, twoJ);
+            // a configuration of one electron over a closed shell gives the parity; "e" means even, no mark;
+            // the level's index in the configuration (or in an unreadable first word) keeps labels unique. (The
+            // index used to follow the term as a last word " #i", so no term and no parity was read and no
+            // random set gave a line: see someRandomSetsGiveLines.)
+            String label = (parity.isEmpty() ? "level" + i + " " : parity.equals("o") ? "5s" + (5 + i) + "p "
+                    : "5s" + (6 + i) + "s ") + term + (parity.equals("o") && r.nextBoolean() ? "o" : "");
+            b.add(label, 1000 * r.nextDouble() * 20, r.nextDouble() * 0.01, twoJ);
         }
         return b.build();
     }
@@ -100,6 +125,21 @@ class RitzLinesTest {
                         }
                     }
                 });
+    }
+
+    @Test
+    void someRandomSetsGiveLines() {
+        // the property test above is only as strong as its levels: most random sets must give lines,
+        // and read parities and terms
+        int withLines = 0;
+        int withTerms = 0;
+        for (long seed = 0; seed < 50; seed++) {
+            RitzLevels levels = randomLevels(seed);
+            withLines += RitzLines.defaults().compute(levels).size() > 0 ? 1 : 0;
+            withTerms += levels.designation(0).hasTerm() ? 1 : 0;
+        }
+        assertTrue(withLines > 25, withLines + " of 50 random sets give lines");
+        assertEquals(50, withTerms, "every random level's term is read");
     }
 
     @Test
@@ -155,8 +195,10 @@ class RitzLinesTest {
         assertEquals(RitzException.BAD_COVARIANCE, bad.code());
         assertTrue(bad.getMessage().contains("'5s5p 1P1' and '5s2 1S0'"), bad.getMessage());
         assertThrows(RitzException.class, () -> plain.withCovariance(new double[][] {{1}}));
-        RitzLevels unknown = RitzLevels.builder(X).add("5s2 1S0", 0, Double.NaN, -1).add("5s5p 1P1", 21698.452, 0.004, -1)
-                .build();
+        // a level above the zero without an uncertainty leaves its lines' unknown (the zero itself is exact:
+        // theZeroOfTheScaleIsExactWhenNoUncertaintyIsGiven)
+        RitzLevels unknown = RitzLevels.builder(X).add("5s5p 3P1", 14504.334, Double.NaN, -1)
+                .add("5s6s 3S1", 29038.773, 0.004, -1).build();
         assertTrue(RitzLines.defaults().compute(unknown).wavenumberUncertaintyPerCm(0).isEmpty());
     }
 

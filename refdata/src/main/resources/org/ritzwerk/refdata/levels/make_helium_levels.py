@@ -10,6 +10,8 @@ Sources (recalled values, not re-read):
           Can. J. Phys. 84, 83 (2006)), from memory.
 Published values the checks use (read in the papers' abstracts):
   IE(1s2 1S0)  = 5 945 204 290(33) MHz   Morton, Wu and Drake, Can. J. Phys. 84, 83 (2006)
+  IE(1s2 1S0)  = 5 945 204 212(6) MHz    measured: D. Z. Kandula, C. Gohle, T. J. Pinkert, W. Ubachs
+                 and K. S. E. Eikema, Phys. Rev. A 84, 062512 (2011)
   IE(1s2s 3S1) = 1 152 842 742.728(6) MHz  G. W. F. Drake, A. T. Bondy, O. P. Hallett and
                  B. C. Najem, arXiv:2510.17495 (2025) (theory for the triplet spectrum)
   IE(1s2s 1S0) = 960 332 040.533(10)(20) MHz  J. Chi, H. Fang, Y.-H. Zhang, L.-Y. Tang and
@@ -51,6 +53,18 @@ added in quadrature to the uncertainty of its series' level. The 1snf levels are
 He I come from n <= 7 and the 2p - nd and 2s - np series' members fade as about n^-3 beyond;
 at n = 10 the nd and nf levels lie about 0.5 cm-1 apart, so electric fields of some 100 V/cm
 (discharge sheaths) already mix them, and field-free levels stop describing a discharge's lines.
+GROUND LEVEL UNCERTAINTY. The ASD's excited levels are IE(1s2 1S0) - IE(level): the theoretical
+ground ionization energy of Morton, Wu and Drake (2006) minus each level's own, far more precise,
+ionization energy (check 1 confirms it: 1s2s 3S1 agrees with that difference to 1e-5 cm-1). So
+where the excited levels sit relative to the ground is uncertain by that of IE(1s2 1S0), one
+offset shared by every excited level: it cancels in lines between excited levels and enters
+every line to the ground. The theory states 33 MHz (1.1e-3 cm-1), but the measurement of Kandula
+et al. (2011), 5 945 204 212(6) MHz, differs from it by 78 MHz (2.6e-3 cm-1), 2.4 of the theory's
+uncertainties. The standard uncertainty of the shared offset is taken as the larger of the two,
+78 MHz, rounded up to two digits: 0.0027 cm-1, written as the ground level's uncertainty (the
+excited levels' stated uncertainties are relative to the ground), so that the Ritz lines to the
+ground carry it and the lines among excited levels do not. The energies are left as the ASD gives
+them (on the theoretical ionization energy): moving them by 78 MHz would mix sources.
 Run: cd refdata/src/main/resources/org/ritzwerk/refdata/levels && /usr/bin/python3 make_helium_levels.py
 """
 import math
@@ -58,6 +72,7 @@ import math
 C_MHZ_PER_CM = 29979.2458
 IE = 5945204290 / C_MHZ_PER_CM
 IE_U = 33 / C_MHZ_PER_CM
+IE_MEASURED = 5945204212 / C_MHZ_PER_CM
 IE_2S3S = 1152842742.728 / C_MHZ_PER_CM
 IE_2S1S = 960332040.533 / C_MHZ_PER_CM
 R_INF = 109737.31568160
@@ -353,10 +368,16 @@ def main():
                     assert 0.85 < ratio < 1.15, term + " fine structure does not scale"
                     for x in ls[1:]:
                         notes.setdefault(x, "check 3 (fine structure scales as n^-3: ratio %.3f)" % ratio)
-    notes["1s2 1S0"] = "ground level (the zero)"
+    ground_u = round_up(max(IE_U, abs(IE - IE_MEASURED)))
+    out.append("ground level: u = %.2g cm-1, the shared offset of the excited levels: the larger of IE_U %.2g cm-1 "
+               "(Morton, Wu and Drake 2006) and the measured IE's difference from it, %.2g cm-1 (Kandula et al. 2011)"
+               % (ground_u, IE_U, abs(IE - IE_MEASURED)))
+    notes["1s2 1S0"] = ("ground level (the zero); u is the offset shared by all excited levels: the ground ionization "
+                        "energy's (theory 33 MHz; measured value %.0f MHz away)" % ((IE - IE_MEASURED) * C_MHZ_PER_CM))
     rows = []
     for label, j, e, _, _ in LEVELS:
-        rows.append("He I,%s,%s,%s,%s,from memory; %s" % (label, e, "%g" % half_unit(e), j, notes[label]))
+        u_text = "%.2g" % ground_u if label == "1s2 1S0" else "%g" % half_unit(e)
+        rows.append("He I,%s,%s,%s,%s,from memory; %s" % (label, e, u_text, j, notes[label]))
         if label == "1s4d 3D3":
             for l4, j4, e4, u4, note4 in n4_rows:
                 rows.append("He I,%s,%s,%.2g,%s,%s" % (l4, e4, u4, j4, note4))
@@ -398,7 +419,7 @@ def main():
         "# provenance: from-memory",
         "# version: NIST ASD (version not re-checked)",
         "# energy-unit: cm-1",
-        "# note: n <= 4: energies as the ASD prints them; uncertainty is half a unit in the last digit; the 4d 3D2 and 3D1 levels (not recalled) are computed: 4d 3D3 plus the n = 3 splittings scaled as (3/4)^3 with 15 %% of the splitting added to the uncertainty; the 4f levels are left out (not recalled); each row's note names its independent check. n = 5-%d (rows whose note begins 'computed'): predicted by this project's Rydberg-Ritz fit of each series' recalled n = 2-4 levels (n = 3-4 for the d series) and the ionization energy of Morton, Wu and Drake (2006); standard uncertainty from the fit's covariance and the truncation of the quantum-defect expansion; 3P1 3P0 3D2 3D1 from the n^-3-scaled splittings of n = 4 (3P) and n = 3 (3D); no nf levels. Checks in helium-checks.txt (make_helium_levels.py)" % N_MAX,
+        "# note: ground level 1s2 1S0: uncertainty %.2g cm-1, the offset shared by every excited level (where they sit relative to the ground is uncertain by the ground ionization energy's uncertainty: theory of Morton, Wu and Drake (2006) 33 MHz, and the measurement of Kandula et al., Phys. Rev. A 84, 062512 (2011), 5945204212(6) MHz, %.0f MHz away; the larger is taken), so lines to the ground carry it and lines between excited levels do not; the excited levels' uncertainties are relative to the ground. n <= 4: energies as the ASD prints them; uncertainty is half a unit in the last digit; the 4d 3D2 and 3D1 levels (not recalled) are computed: 4d 3D3 plus the n = 3 splittings scaled as (3/4)^3 with 15 %% of the splitting added to the uncertainty; the 4f levels are left out (not recalled); each row's note names its independent check. n = 5-%d (rows whose note begins 'computed'): predicted by this project's Rydberg-Ritz fit of each series' recalled n = 2-4 levels (n = 3-4 for the d series) and the ionization energy of Morton, Wu and Drake (2006); standard uncertainty from the fit's covariance and the truncation of the quantum-defect expansion; 3P1 3P0 3D2 3D1 from the n^-3-scaled splittings of n = 4 (3P) and n = 3 (3D); no nf levels. Checks in helium-checks.txt (make_helium_levels.py)" % (ground_u, (IE - IE_MEASURED) * C_MHZ_PER_CM, N_MAX),
         "species,label,energy,uncertainty,j,note",
     ]
     with open("levels-he-i.csv", "w") as f:
