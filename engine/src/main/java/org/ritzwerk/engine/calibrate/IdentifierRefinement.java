@@ -102,7 +102,7 @@ final class IdentifierRefinement {
         int[] lineIndex = new int[n];
         int m = 0;
         for (int q = 0; q < c; q++) {
-            if (id.status(q) == Identification.MATCHED) {
+            if (id.matchedByOdds(q)) {
                 int k = candidate[q];
                 peakIndex[m] = k;
                 lineIndex[m] = Integer.parseInt(built.label(id.line(q)));

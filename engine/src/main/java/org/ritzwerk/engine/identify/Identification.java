@@ -182,10 +182,12 @@ public final class Identification {
     /**
      * @param i peak index
      * @return whether the peak is matched with posterior odds of at least the threshold against
-     *         its runner-up, whatever its species shows elsewhere (the shift searches fit from
-     *         these: a species' other lines must not decide where its lines are looked for)
+     *         its runner-up, whatever its species shows elsewhere: the shift searches fit from
+     *         these (a species' other lines must not decide where its lines are looked for), and
+     *         so does a lamp calibration (an instrument's response, not absence, dims a lamp
+     *         gas's strong lines at one end of the detector)
      */
-    boolean matchedByOdds(int i) {
+    public boolean matchedByOdds(int i) {
         return linePlusOne[i] > 0;
     }
 
