@@ -380,7 +380,8 @@ final class IdentifyCommand implements Callable<Integer> {
                     row.lines(), row.note());
         }
         if (rows.isEmpty()) {
-            spec.commandLine().getErr().println("identify: no matched multiplet of a --species line; nothing to diagnose");
+            spec.commandLine().getErr().println("identify: no matched line with a known upper level, weight and A (a --species line, or a"
+                    + " level-list line with A); nothing to diagnose");
             spec.commandLine().getErr().flush();
         }
         table.finish();

@@ -277,6 +277,50 @@ class IdentifyCommandTest {
      * Longbothum, J. Quant. Spectrosc. Radiat. Transfer 17, 233 (1977)) with the instrument's
      * lambda / R.
      */
+    @Test
+    void heliumLinesGiveAnExcitationTemperature(@TempDir Path dir) throws IOException {
+        // synth's He I truth at T = 30,000 K (photons from g A exp(-E / kT), the Boltzmann
+        // relation, common practice), each LS multiplet's components summed into one peak at their
+        // intensity-weighted mean, as a spectrometer that does not resolve them shows it. The
+        // Boltzmann plot over the matched lines and multiplets must give the temperature back; the
+        // multiplets' upper energies are their g A-weighted means, off by far less than kT.
+        Path truth = dir.resolve("he-truth.csv");
+        CliTest.Run synth = CliTest.run("synth", "--species", "He I", "--from", "380 nm", "--to", "700 nm",
+                "--temperature", "30000", "--resolving-power", "5000", "--no-noise", "--truth", truth.toString(),
+                "--out", dir.resolve("he-spectrum.csv").toString());
+        assertEquals(0, synth.code(), synth.err());
+        java.util.Map<String, double[]> multiplets = new java.util.LinkedHashMap<>();
+        for (String row : Files.readAllLines(truth)) {
+            if (row.startsWith("#") || row.startsWith("wavelength_nm")) {
+                continue;
+            }
+            String[] c = row.split(",");
+            double nm = Double.parseDouble(c[0]);
+            double counts = Double.parseDouble(c[1]);
+            if (nm < 380 || nm > 700 || counts <= 0) {
+                continue;
+            }
+            String term = c[5].replaceAll("(\\d[SPDF])\\d+( |$)", "$1$2");
+            double[] sum = multiplets.computeIfAbsent(term, k -> new double[2]);
+            sum[0] += counts;
+            sum[1] += counts * nm;
+        }
+        StringBuilder peaks = new StringBuilder("# ritzwerk-peaks 1\n# id: he\n# title: synthetic\n"
+                + "# source: ritzwerk synth\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
+                + "# medium: vacuum\nposition,uncertainty,intensity\n");
+        multiplets.values().forEach(sum -> peaks.append(String.format(java.util.Locale.ROOT, "%.6f,0.002,%s%n",
+                sum[1] / sum[0], sum[0])));
+        assertTrue(multiplets.size() > 10, multiplets.keySet().toString());
+        Path file = dir.resolve("he-peaks.csv");
+        Files.writeString(file, peaks);
+        CliTest.Run run = CliTest.run("identify", file.toString(), "--species", "He I", "--plasma", "--format",
+                "json");
+        assertEquals(0, run.code(), run.err());
+        JsonNode row = JsonMapper.builder().build().readTree(run.out().strip().split("\\R")[0]);
+        assertEquals("excitation_temperature", row.get("quantity").asString(), run.out());
+        assertEquals(30_000, row.get("value").asDouble(), 30, run.out());
+    }
+
     static String plasmaPeaks(Path dir, String id, String intensityFormat) throws IOException {
         Path truth = dir.resolve(id + "-truth.csv");
         CliTest.Run synth = CliTest.run("synth", "--species", "H I", "--from", "380 nm", "--to", "700 nm",

@@ -50,12 +50,28 @@ public final class Candidates {
             double einsteinA, double frequency) {
     }
 
+    /**
+     * What a Boltzmann plot needs of a line: the energy of its upper level and the product
+     * g_u A, for a line whose upper level, weight and A are known (a one-electron multiplet, a
+     * level-list line with A, or an LS multiplet of such lines entered as one blend: the sum of
+     * g_u A over its components at their g_u A-weighted mean upper energy, exact where the
+     * components' upper levels share one energy and close where their fine structure is small
+     * beside kT; common practice).
+     *
+     * @param upperEnergy        upper energy above the ground level, J
+     * @param weightTimesEinsteinA g_u A, s^-1
+     */
+    public record Emission(double upperEnergy, double weightTimesEinsteinA) {
+    }
+
     private final LineCatalog catalog;
     private final Map<String, Multiplet> multiplets;
+    private final Map<String, Emission> emissions;
 
-    private Candidates(LineCatalog catalog, Map<String, Multiplet> multiplets) {
+    private Candidates(LineCatalog catalog, Map<String, Multiplet> multiplets, Map<String, Emission> emissions) {
         this.catalog = catalog;
         this.multiplets = multiplets;
+        this.emissions = emissions;
     }
 
     /**
@@ -87,6 +103,21 @@ public final class Candidates {
     }
 
     /**
+     * @param lines a catalog whose lines keep this one's species and labels (as for
+     *              {@link #multiplet})
+     * @param j     a line of it
+     * @return what a Boltzmann plot needs of that line, or null when its upper level, weight or A
+     *         is not known
+     */
+    public Emission emission(LineCatalog lines, int j) {
+        Multiplet m = multiplet(lines, j);
+        if (m != null) {
+            return new Emission(m.upperEnergy(), m.weight() * m.einsteinA());
+        }
+        return emissions.get(key(lines.species(j), lines.label(j)));
+    }
+
+    /**
      * Components of one LS multiplet closer than this fraction of their wavelength are entered as
      * one blend (1e-4: 0.06 nm at 600 nm, unresolved at resolving powers below 10 000).
      */
@@ -107,6 +138,7 @@ public final class Candidates {
         private final double hi;
         private final List<Consumer<LineCatalog.Builder>> sources = new ArrayList<>();
         private final Map<String, Multiplet> multiplets = new HashMap<>();
+        private final Map<String, Emission> emissions = new HashMap<>();
         private double excitationTemperature = Double.NaN;
         private int count;
 
@@ -224,6 +256,7 @@ public final class Candidates {
             LineCatalog.Builder builder = LineCatalog.builder();
             count = 0;
             multiplets.clear();
+            emissions.clear();
             for (Consumer<LineCatalog.Builder> source : sources) {
                 source.accept(builder);
             }
@@ -231,7 +264,7 @@ public final class Candidates {
                 throw new IdentificationException(IdentificationException.NO_CANDIDATES, "no candidate line lies in the range of the peaks ("
                         + String.format(Locale.ROOT, "%.6g to %.6g nm in vacuum", lo * 1e9, hi * 1e9) + ")");
             }
-            return new Candidates(builder.build(), Map.copyOf(multiplets));
+            return new Candidates(builder.build(), Map.copyOf(multiplets), Map.copyOf(emissions));
         }
 
         /**
@@ -271,6 +304,11 @@ public final class Candidates {
                     b.addBlend(lines.species(i), vacuum, sigma, strength, label, components, weights);
                 } else {
                     b.add(lines.species(i), vacuum, sigma, strength, label);
+                    if (lines.upperEnergyJoules(i).isPresent() && lines.upperWeight(i).isPresent()
+                            && lines.einsteinA(i).isPresent()) {
+                        emissions.put(key(lines.species(i), label), new Emission(lines.upperEnergyJoules(i).getAsDouble(),
+                                lines.upperWeight(i).getAsInt() * lines.einsteinA(i).getAsDouble()));
+                    }
                 }
                 count++;
             }
@@ -351,8 +389,24 @@ public final class Candidates {
                 weighted += w * vacuum;
                 sigma = Math.max(sigma, lines.vacuumWavelengthUncertaintyMetres(i).orElse(0));
             }
-            b.addBlend(lines.species(members.get(0)), weighted / weight, sigma, allKnown ? total : Double.NaN,
-                    label + " (" + members.size() + " components)", components, weights);
+            String name = label + " (" + members.size() + " components)";
+            b.addBlend(lines.species(members.get(0)), weighted / weight, sigma, allKnown ? total : Double.NaN, name,
+                    components, weights);
+            double gA = 0;
+            double energy = 0;
+            for (int i : members) {
+                if (lines.upperEnergyJoules(i).isEmpty() || lines.upperWeight(i).isEmpty()
+                        || lines.einsteinA(i).isEmpty()) {
+                    gA = Double.NaN;
+                    break;
+                }
+                double each = lines.upperWeight(i).getAsInt() * lines.einsteinA(i).getAsDouble();
+                gA += each;
+                energy += each * lines.upperEnergyJoules(i).getAsDouble();
+            }
+            if (gA > 0) {
+                emissions.put(key(lines.species(members.get(0)), name), new Emission(energy / gA, gA));
+            }
             count++;
         }
 

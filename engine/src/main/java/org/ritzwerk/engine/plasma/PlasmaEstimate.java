@@ -23,9 +23,10 @@ import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
 
 /**
- * Plasma conditions from identified peaks: the excitation temperature of each one-electron
- * species from a Boltzmann plot of its matched n -&gt; n' multiplets ({@link BoltzmannPlot}, peak
- * intensities counted as photons), and the electron density from the measured width of each
+ * Plasma conditions from identified peaks: the excitation temperature of each species from a
+ * Boltzmann plot of its matched lines whose upper level, weight and A are known (one-electron
+ * n -&gt; n' multiplets, level-list lines with A such as He I's; {@link Candidates#emission};
+ * {@link BoltzmannPlot}, peak intensities counted as photons), and the electron density from the measured width of each
  * matched H or D Balmer-alpha and -beta peak ({@link BalmerStark}): the instrument's Gaussian
  * (a FWHM, or lambda / R) and the Doppler width (at the species' temperature, else the given
  * one, else 10,000 K) are taken out of the Voigt width ({@link Profiles#lorentzFwhmOfVoigt})
@@ -200,8 +201,9 @@ public final class PlasmaEstimate {
      * @param peaks          the peaks as measured
      * @param identification their identification
      * @param lines          the catalog they were identified against (as shifted)
-     * @param candidates     the candidates the catalog came from, for the multiplets' physics
-     * @return the temperature rows (one per species with matched multiplets), then the density rows
+     * @param candidates     the candidates the catalog came from, for the lines' physics
+     * @return the temperature rows (one per species with matched lines of known upper level, weight
+     *         and A), then the density rows
      *         (one per matched Balmer-alpha or -beta peak of H or D); empty when nothing matched
      * @throws IllegalArgumentException when the peaks are not the identification's, peak for peak
      *                                  (another count, or a position elsewhere)
@@ -229,7 +231,7 @@ public final class PlasmaEstimate {
             if (identification.status(i) != Identification.MATCHED || j < 0) {
                 continue;
             }
-            if (candidates.multiplet(lines, j) != null) {
+            if (candidates.emission(lines, j) != null) {
                 bySpecies.computeIfAbsent(lines.species(j), k -> new ArrayList<>()).add(new int[] {i, j});
             }
         }
@@ -242,8 +244,9 @@ public final class PlasmaEstimate {
                 if (!(intensity > 0)) {
                     continue;
                 }
-                Candidates.Multiplet m = candidates.multiplet(lines, pair[1]);
-                points.add(new double[] {intensity, m.upperEnergy(), m.weight(), m.einsteinA()});
+                // the fit uses g_u A only as a product: it goes in as the weight, with A = 1
+                Candidates.Emission e = candidates.emission(lines, pair[1]);
+                points.add(new double[] {intensity, e.upperEnergy(), e.weightTimesEinsteinA(), 1});
             }
             long levels = points.stream().mapToDouble(p -> p[1]).distinct().count();
             if (levels < 3) {
@@ -271,7 +274,7 @@ public final class PlasmaEstimate {
         for (Map.Entry<Species, List<int[]>> entry : bySpecies.entrySet()) {
             for (int[] pair : entry.getValue()) {
                 Candidates.Multiplet m = candidates.multiplet(lines, pair[1]);
-                BalmerStark.Line balmer = BalmerStark.Line.of(m.upperN(), m.lowerN());
+                BalmerStark.Line balmer = m == null ? null : BalmerStark.Line.of(m.upperN(), m.lowerN());
                 if (balmer == null || m.model().nucleus().z() != 1) {
                     continue;
                 }
