@@ -141,9 +141,12 @@ public final class Identification {
      * @param strongInRange     its strong lines inside the peaks' range
      * @param strongMatched     those that explain a peak
      * @param strongByChance    how many of those a peak would lie near by chance alone
-     * @param chanceProbability the probability that chance alone matches at least
-     *                          {@code strongMatched} of the strong lines (the significance; small
-     *                          is significant), 1 when none is matched, NaN without strong lines
+     * @param chanceProbability the probability that chance alone gives what was found: twice the
+     *                          smaller of the probabilities that it matches at least
+     *                          {@code strongMatched} of the strong lines and at least
+     *                          {@code matched} of all the species' lines (the significance; small
+     *                          is significant; see {@link Identification#speciesPresence()}), at
+     *                          most 1; NaN without strong lines
      * @param presence          the share of the strong lines that the species explains beyond
      *                          chance, at its one-sided 99 % lower bound, in [0, 1]; NaN without
      *                          strong lines
@@ -417,17 +420,22 @@ public final class Identification {
      * v = sum p_j (1 - p_j).
      *
      * <p><b>Significance.</b> The number N of strong lines matched by chance is a sum of
-     * independent Bernoulli(p_j) (Poisson-binomial); {@code chanceProbability} is
-     * P(N &gt;= k) for the observed count k, by exact recursion over the lines, or, when lines
-     * times k exceed {@value #EXACT_TAIL_WORK}, by the normal approximation with continuity
-     * correction 1 - Phi((k - 1/2 - mu) / sqrt(v)) (Lyapunov's central limit theorem; common
-     * practice).
+     * independent Bernoulli(p_j) (Poisson-binomial); P_s = P(N &gt;= k) for the observed count
+     * k, by exact recursion over the lines, or, when lines times k exceed
+     * {@value #EXACT_TAIL_WORK}, by the normal approximation with continuity correction
+     * 1 - Phi((k - 1/2 - mu) / sqrt(v)) (Lyapunov's central limit theorem; common practice).
+     * P_a is the same for all the species' lines counted above and all its matched lines: a
+     * species with one strong line in range but many weaker lines matched (He II 468.6 nm and 15
+     * more where chance expects 0.7) is told from chance by them. {@code chanceProbability} is
+     * min(1, 2 min(P_s, P_a)) (two tests, Bonferroni's bound; common practice); P_a is worked out
+     * only where 2 P_s exceeds 0.01, elsewhere the figure is 2 P_s.
      *
      * <p><b>After a shift search.</b> When a velocity or offset search moved the lines over a span
      * W (at the peaks' middle) and kept the best shift, chance had about T = W / (2 h) independent
-     * tries (h the tolerance's half-width there), so {@code chanceProbability} is
-     * 1 - (1 - P)^T of the single-position P (look-elsewhere; common practice) and presence is 0
-     * when that exceeds 0.01. The expected chance counts stay those of one position.
+     * tries (h the tolerance's half-width there), so P_s and P_a are each 1 - (1 - P)^T of the
+     * single-position P (look-elsewhere; common practice) and presence is 0 when
+     * {@code chanceProbability} exceeds 0.01. The expected chance counts stay those of one
+     * position.
      *
      * <p><b>Presence.</b> Of n strong lines, a species that truly shows a share f of them is
      * expected to match k = n f + (n - n f) p of them, p the chance rate, so
@@ -435,8 +443,8 @@ public final class Identification {
      * correction of J. Cohen, Educ. Psychol. Meas. 20, 37 (1960), cited from memory).
      * {@code presence} takes k at its one-sided 99 % lower bound (normal approximation),
      * {@code (k - mu - 2.326 sqrt(v)) / (n - mu)}, clipped to [0, 1], and is 0 when n - mu is
-     * not positive (chance alone explains every strong line) or when chance gives k or more
-     * matches more often than 1 % of the time ({@code chanceProbability} above 0.01: the normal
+     * not positive (chance alone explains every strong line) or when chance gives what was found
+     * more often than 1 % of the time ({@code chanceProbability} above 0.01: the normal
      * bound alone gave random peaks presence 0.2 where chance expects 0.03 matches and one came).
      * Random peaks thus give presence 0 in at least 99 % of cases whatever their density; a
      * species whose strong lines are all found among sparse peaks gets nearly 1. Limits: the chance model treats peaks as a Poisson
@@ -491,11 +499,16 @@ public final class Identification {
             int n = strong[s];
             int k = strongMatched[s];
             double mu = strongByChance[s];
-            double chance = n == 0 ? Double.NaN : chanceProbability(strongRates[s], n, k, mu, strongVariance[s]);
-            // After a shift search the best of about `trials` independent shifts was kept: the
-            // chance that some shift gives k or more is 1 - (1 - P)^trials (look-elsewhere).
-            if (trials > 1 && !Double.isNaN(chance)) {
-                chance = -Math.expm1(trials * Math.log1p(-Math.min(chance, 1)));
+            double chance = n == 0 ? Double.NaN
+                    : lookElsewhere(chanceProbability(strongRates[s], n, k, mu, strongVariance[s]), trials);
+            if (n > 0) {
+                // Two tests, the strong lines found and all lines matched: twice the smaller
+                // probability (Bonferroni); the second is worked out only where it can matter.
+                chance = Math.min(1, 2 * chance);
+                if (chance > 0.01 && matched[s] > 0) {
+                    chance = Math.min(chance, 2 * lookElsewhere(allLinesChance(s, sorted, typicalSigma, lo, hi,
+                            matched[s]), trials));
+                }
             }
             double share = Double.NaN;
             if (n > 0) {
@@ -509,6 +522,40 @@ public final class Identification {
                     chance, share));
         }
         return presence;
+    }
+
+    /** After a shift search the best of about T independent shifts was kept: 1 - (1 - P)^T (look-elsewhere). */
+    private static double lookElsewhere(double chance, double trials) {
+        return trials > 1 && !Double.isNaN(chance) ? -Math.expm1(trials * Math.log1p(-Math.min(chance, 1))) : chance;
+    }
+
+    /**
+     * The probability that chance alone matches at least {@code matched} of species s's lines
+     * near the peaks' range (the lines {@link #speciesPresence} counts chance matches for).
+     */
+    private double allLinesChance(int s, double[] sorted, double typicalSigma, double lo, double hi, int matched) {
+        double[] rates = new double[16];
+        int n = 0;
+        double mu = 0;
+        double variance = 0;
+        for (int j = 0; j < lines.size(); j++) {
+            if (lines.speciesIndex(j) != s) {
+                continue;
+            }
+            double w = lines.wavelength(j);
+            double h = tolerance.halfWidth(w, typicalSigma, lines.sigma(j));
+            if (!used[j] && (w < lo - h || w > hi + h)) {
+                continue;
+            }
+            double p = chanceRate(sorted, w, h, lines.windowLength(j, h));
+            if (n == rates.length) {
+                rates = java.util.Arrays.copyOf(rates, 2 * n);
+            }
+            rates[n++] = p;
+            mu += p;
+            variance += p * (1 - p);
+        }
+        return chanceProbability(rates, n, matched, mu, variance);
     }
 
     /**
