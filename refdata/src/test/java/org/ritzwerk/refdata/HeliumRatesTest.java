@@ -196,21 +196,25 @@ class HeliumRatesTest {
                 b.electronDensity(1e22);
             }
             Scene scene = b.build();
-            Scene.Lines lines = scene.lines();
-            int neutral = -1;
-            int ionised = -1;
-            for (int i = 0; i < lines.size(); i++) {
-                neutral = lines.label(i).equals("He I 1s3d 3D3 - 1s2p 3P2") ? i : neutral;
-                ionised = lines.label(i).endsWith("(4-3)") ? i : ionised;
-            }
-            assertTrue(neutral >= 0 && ionised >= 0, "He I 587.6 nm and He II 468.6 nm in the scene");
-            ratio[k] = lines.photons(neutral) / lines.photons(ionised);
+            ratio[k] = photonRatio(scene.lines());
             notes = scene.notes();
         }
         double partition = neutralPartition(levels, 20_000);
         assertEquals(1.0003556, partition, 1e-7, "the list's sum at 20,000 K");
         assertEquals(partition / 1.74066733, ratio[1] / ratio[0], 1e-6);
         assertTrue(notes.stream().noneMatch(n -> n.contains("no ionisation balance")), notes.toString());
+    }
+
+    /** @return the photons of He I 587.6 nm (its 3D3 - 3P2 component) over those of He II 468.6 nm */
+    private static double photonRatio(Scene.Lines lines) {
+        int neutral = -1;
+        int ionised = -1;
+        for (int i = 0; i < lines.size(); i++) {
+            neutral = lines.label(i).equals("He I 1s3d 3D3 - 1s2p 3P2") ? i : neutral;
+            ionised = lines.label(i).endsWith("(4-3)") ? i : ionised;
+        }
+        assertTrue(neutral >= 0 && ionised >= 0, "He I 587.6 nm and He II 468.6 nm in the scene");
+        return lines.photons(neutral) / lines.photons(ionised);
     }
 
     /** He I's partition function from the list: sum of (2J + 1) exp(-E / kT) (Boltzmann's law, common practice). */
@@ -249,15 +253,7 @@ class HeliumRatesTest {
             if (k == 1) {
                 b.electronDensity(density);
             }
-            Scene.Lines lines = b.build().lines();
-            int neutral = -1;
-            int ionised = -1;
-            for (int i = 0; i < lines.size(); i++) {
-                neutral = lines.label(i).equals("He I 1s3d 3D3 - 1s2p 3P2") ? i : neutral;
-                ionised = lines.label(i).endsWith("(4-3)") ? i : ionised;
-            }
-            assertTrue(neutral >= 0 && ionised >= 0, "He I 587.6 nm and He II 468.6 nm in the scene");
-            ratio[k] = lines.photons(neutral) / lines.photons(ionised);
+            ratio[k] = photonRatio(b.build().lines());
         }
         double partitionI = neutralPartition(levels, kelvin);
         assertEquals(2.2168, partitionI, 1e-4, "the list's sum at 50,000 K (the reviewer's figure)");

@@ -7,6 +7,7 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.apache.commons.numbers.gamma.RegularizedGamma;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
 
 /**
  * The result of a {@link SeriesFitter}: the series limit and each series' quantum-defect
@@ -481,14 +482,7 @@ public final class SeriesFit {
             throw new IllegalArgumentException(String.format(Locale.ROOT, "n must be finite and above d0 = %.6f of "
                     + "series %s, got %s", d[0], model.series.get(s).name(), n));
         }
-        double x = 1 / ((n - d[0]) * (n - d[0]));
-        double sum = 0;
-        double power = 1;
-        for (double c : d) {
-            sum += c * power;
-            power *= x;
-        }
-        return sum;
+        return AlkaliAtom.rydbergRitzDefect(Arrays.stream(d).boxed().toList(), n);
     }
 
     /**

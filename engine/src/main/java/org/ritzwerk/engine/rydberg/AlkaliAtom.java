@@ -534,7 +534,18 @@ public final class AlkaliAtom {
         return defect(coefficients, n);
     }
 
-    private static double defect(List<Double> coefficients, int n) {
+    /**
+     * {@link #rydbergRitzDefect(List, int)} at a real n (to draw delta(n) as a smooth curve).
+     *
+     * @param coefficients d0, d2, d4, ... (at least d0)
+     * @param n            a real n above {@code d0}
+     * @return delta(n), dimensionless
+     */
+    public static double rydbergRitzDefect(List<Double> coefficients, double n) {
+        return defect(coefficients, n);
+    }
+
+    private static double defect(List<Double> coefficients, double n) {
         double d0 = coefficients.get(0);
         double x = 1 / ((n - d0) * (n - d0));
         double sum = 0;
