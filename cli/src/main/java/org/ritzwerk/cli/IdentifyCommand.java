@@ -76,6 +76,12 @@ final class IdentifyCommand implements Callable<Integer> {
             description = "Highest upper n for --species lines (default: ${DEFAULT-VALUE}).")
     int nMax;
 
+    @Option(names = "--intercombination",
+            description = "Level lists (He I, Sr I): also the lines the LS-coupling rules forbid where both levels give"
+                    + " a term (intercombination lines between singlets and triplets, such as Sr I 689.26 nm); by"
+                    + " default only the E1 and LS rules' lines.")
+    boolean intercombination;
+
     @Option(names = "--components",
             description = "Use fine-structure components of --species lines instead of n -> n' multiplets (a "
                     + "multiplet counts as a blend: it may explain more than one peak, but only peaks within "
@@ -326,10 +332,13 @@ final class IdentifyCommand implements Callable<Integer> {
                 + " lists bring their own)";
         rules.refuseUnless("--model", !resolved.ions().isEmpty(), noIon);
         rules.refuseUnless("--components", !resolved.ions().isEmpty(), noIon);
+        rules.refuseUnless("--intercombination", !levelSets.levels().isEmpty(), "without a species with a level list"
+                + " in --species (it lets through the level lists' lines that the LS-coupling rules forbid)");
         for (var levels : levelSets.levels()) {
-            // Ritz lines under the E1 and LS rules, with the context's A values (He I: lines-he-i)
-            builder.lineSet(LineSet.ofRitz(DataLines.ritzLines(data.context(), levels.species()).withLsRules(true)
-                    .compute(levels)));
+            // Ritz lines under the E1 rules (and the LS rules unless --intercombination), with the
+            // context's A values (He I: lines-he-i)
+            builder.lineSet(LineSet.ofRitz(DataLines.ritzLines(data.context(), levels.species())
+                    .withLsRules(!intercombination).compute(levels)));
         }
         if (!levelSets.others().isEmpty()) {
             Ions.Atoms atoms = resolved;

@@ -278,6 +278,28 @@ class IdentifyCommandTest {
      * lambda / R.
      */
     @Test
+    void intercombinationLinesOfALevelListAreCandidatesOnRequest(@TempDir Path dir) throws IOException {
+        // Sr I 460.733 nm (5s5p 1P1 - 5s2 1S0) and the intercombination line 689.259 nm (5s5p 3P1 -
+        // 5s2 1S0), air (J. E. Sansonetti and W. C. Martin, Handbook of Basic Atomic Spectroscopic
+        // Data, J. Phys. Chem. Ref. Data 34, 1559 (2005), strong lines of Sr I; from memory)
+        Path peaks = dir.resolve("sr.csv");
+        Files.writeString(peaks, HEADER + "position,uncertainty\n460.733,0.002\n689.259,0.002\n",
+                StandardCharsets.UTF_8);
+        CliTest.Run plain = CliTest.run("identify", peaks.toString(), "--species", "Sr I", "--format", "csv");
+        assertEquals(0, plain.code(), plain.err());
+        assertTrue(plain.out().contains("unexplained"), plain.out());
+        CliTest.Run with = CliTest.run("identify", peaks.toString(), "--species", "Sr I", "--intercombination",
+                "--format", "csv");
+        assertEquals(0, with.code(), with.err());
+        assertTrue(with.out().contains("5s5p 3P1 - 5s2 1S0"), with.out());
+        assertFalse(with.out().contains("unexplained"), with.out());
+        CliTest.Run refused = CliTest.run("identify", peaks.toString(), "--species", "H I", "--intercombination");
+        assertEquals(2, refused.code());
+        assertTrue(refused.err().contains("--intercombination has no effect without a species with a level list"),
+                refused.err());
+    }
+
+    @Test
     void heliumLinesGiveAnExcitationTemperature(@TempDir Path dir) throws IOException {
         // synth's He I truth at T = 30,000 K (photons from g A exp(-E / kT), the Boltzmann
         // relation, common practice), each LS multiplet's components summed into one peak at their
