@@ -230,7 +230,7 @@ public final class Identification {
         int j = Identifier.lowerBound(lines.wavelengths(), x - reach - lines.partsAbove());
         List<double[]> found = new ArrayList<>();
         for (; j < lines.size() && lines.wavelength(j) <= x + reach + lines.partsBelow(); j++) {
-            double r = x - lines.nearestPosition(j, x, reach);
+            double r = x - lines.nearestPosition(j, x, tolerance.halfWidth(x, sigma, lines.sigma(j)));
             if (Math.abs(r) > tolerance.halfWidth(x, sigma, lines.sigma(j))) {
                 continue;
             }
@@ -251,10 +251,12 @@ public final class Identification {
      *         ({@link LineCatalog#nearestPosition}); NaN when unexplained
      */
     public double matchedPosition(int i) {
-        return line(i) < 0 ? Double.NaN : lines.nearestPosition(line(i), peaks.wavelength(i), reach(i));
+        int j = line(i);
+        return j < 0 ? Double.NaN : lines.nearestPosition(j, peaks.wavelength(i),
+                tolerance.halfWidth(peaks.wavelength(i), peaks.sigma(i), lines.sigma(j)));
     }
 
-    /** The tolerance's half-width at peak i, as the identifier took it for its candidates. */
+    /** The tolerance's half-width at peak i for any line, as the identifier took it for its candidates. */
     private double reach(int i) {
         return tolerance.halfWidth(peaks.wavelength(i), peaks.sigma(i), lines.maxSigma());
     }

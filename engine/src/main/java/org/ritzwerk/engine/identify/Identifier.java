@@ -359,7 +359,9 @@ public final class Identifier {
             int firstLine = -1;
             int before = component.size;
             for (int j = lo; j < m && lw[j] <= x + reach + below; j++) {
-                double r = x - (withParts ? lines.nearestPosition(j, x, reach) : lw[j]);
+                // (a blend's groups part at the tolerance of this peak and this line)
+                double r = x - (withParts ? lines.nearestPosition(j, x, exactReach ? reach
+                        : tolerance.halfWidth(x, sigma, lines.sigma(j))) : lw[j]);
                 double z;
                 if (withParts && exactReach && Math.abs(r) > reach) {
                     continue;

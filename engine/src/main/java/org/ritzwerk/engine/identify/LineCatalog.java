@@ -156,12 +156,11 @@ public final class LineCatalog {
      * Where line j would be seen by a peak at x whose tolerance has half-width h: for a blend
      * with declared components
      * ({@link Builder#addBlend(Species, double, double, double, String, double[], double[])}),
-     * its wavelength (the components' weighted centroid, where the instrument does not resolve
-     * them) when x lies within h of it, else the nearest to x of its wavelength and the weighted
-     * centroids of the groups its components form when parted at every gap wider than 2 h (the
-     * groups a peak of that precision can tell apart, where the instrument resolves them); with
-     * one group, the wavelength alone; for every other line its wavelength. A peak that matched
-     * the centroid is thus never moved to a group, and a resolved group beside it is found.
+     * the nearest to x of its wavelength (the components' weighted centroid, where the
+     * instrument does not resolve them) and the weighted centroids of the groups its components
+     * form when parted at every gap wider than 2 h (the groups a peak of that precision can tell
+     * apart, where the instrument resolves them); with one group, the wavelength alone; for every
+     * other line its wavelength.
      *
      * @param j     line index
      * @param x     a peak's vacuum wavelength, metres
@@ -171,7 +170,7 @@ public final class LineCatalog {
     public double nearestPosition(int j, double x, double reach) {
         double best = wavelength[j];
         double[] offsets = parts == null ? null : parts[j];
-        if (offsets == null || offsets.length < 2 || Math.abs(x - best) <= reach) {
+        if (offsets == null || offsets.length < 2) {
             return best;
         }
         double[] weights = partWeights[j];

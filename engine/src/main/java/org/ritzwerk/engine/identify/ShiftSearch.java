@@ -58,13 +58,46 @@ public final class ShiftSearch {
         }
         double zMax = maxSpeed / PhysicalConstants.C;
         double width = relativeWidth(identifier.tolerance(), peaks, lines);
-        double z = densest(votes(peaks, lines, zMax, true), width);
-        Fit fit = null;
-        for (int round = 0; round < 2; round++) {
-            fit = refine(identifier, peaks, lines, z, true);
-            z = fit.value();
+        return search(identifier, peaks, lines, zMax, width, true);
+    }
+
+    /**
+     * The densest window of the votes from the lines' centroids, refined; where some blend has
+     * groups of components, also the densest window of the votes from every position a peak may
+     * see a line at, refined, and the better of the two kept: more matched peaks, then the
+     * smaller chi-square of their implied shifts. (Centroid votes alone find a shift from resolved
+     * groups only by the centroid's offset; all votes alone can prefer a shift where groups of
+     * several unresolved multiplets line up.)
+     */
+    private static Fit search(Identifier identifier, PeakList peaks, LineCatalog lines, double range, double width,
+            boolean relative) {
+        double start = densest(votes(identifier.tolerance(), peaks, lines, range, relative, false), width);
+        Refined best = refineTwice(identifier, peaks, lines, start, relative);
+        if (lines.partsBelow() > 0 || lines.partsAbove() > 0) {
+            double other = densest(votes(identifier.tolerance(), peaks, lines, range, relative, true), width);
+            if (other != start) {
+                Refined alternative = refineTwice(identifier, peaks, lines, other, relative);
+                if (alternative.fit.matches() > best.fit.matches() || alternative.fit.matches() == best.fit.matches()
+                        && alternative.chiSquare < best.chiSquare) {
+                    best = alternative;
+                }
+            }
         }
-        return fit;
+        return best.fit;
+    }
+
+    /** A refined shift and the chi-square of its matched peaks' implied shifts about it. */
+    private record Refined(Fit fit, double chiSquare) {
+    }
+
+    private static Refined refineTwice(Identifier identifier, PeakList peaks, LineCatalog lines, double shift,
+            boolean relative) {
+        Refined refined = null;
+        for (int round = 0; round < 2; round++) {
+            refined = refine(identifier, peaks, lines, shift, relative);
+            shift = refined.fit.value();
+        }
+        return refined;
     }
 
     /**
@@ -80,17 +113,16 @@ public final class ShiftSearch {
         }
         double mid = peaks.wavelength(peaks.size() / 2);
         double width = relativeWidth(identifier.tolerance(), peaks, lines) * mid;
-        double offset = densest(votes(peaks, lines, maxOffset, false), width);
-        Fit fit = null;
-        for (int round = 0; round < 2; round++) {
-            fit = refine(identifier, peaks, lines, offset, false);
-            offset = fit.value();
-        }
-        return fit;
+        return search(identifier, peaks, lines, maxOffset, width, false);
     }
 
-    /** Every implied shift of a peak-line pair within range, sampling peaks when there are too many. */
-    private static double[] votes(PeakList peaks, LineCatalog lines, double range, boolean relative) {
+    /**
+     * Every implied shift of a peak-line pair within range, sampling peaks when there are too many;
+     * from the lines' wavelengths (centroids), or with {@code groups} from every position a peak
+     * may see a line at ({@link LineCatalog#positions}).
+     */
+    private static double[] votes(Tolerance tolerance, PeakList peaks, LineCatalog lines, double range,
+            boolean relative, boolean groups) {
         double[] lw = lines.wavelengths();
         int n = peaks.size();
         double[] votes = new double[1024];
@@ -103,18 +135,24 @@ public final class ShiftSearch {
                 double x = peaks.wavelength(i);
                 double lo = relative ? x / (1 + range) : x - range;
                 double hi = relative ? x / (1 - range) : x + range;
-                int j = Identifier.lowerBound(lw, lo);
-                // (a blend votes from its centroid only: its groups of components would add
-                // aliases of the shift; the refinement then finds resolved groups)
-                for (; j < lw.length && lw[j] <= hi; j++) {
-                    if (size == votes.length) {
-                        if (size >= MAX_VOTES) {
-                            full = true;
-                            break;
+                int j = Identifier.lowerBound(lw, groups ? lo - lines.partsAbove() : lo);
+                for (; j < lw.length && lw[j] <= (groups ? hi + lines.partsBelow() : hi) && !full; j++) {
+                    double[] seen = groups ? lines.positions(j, tolerance.halfWidth(x, peaks.sigma(i),
+                            lines.sigma(j))) : null;
+                    for (int k = 0; k < (seen == null ? 1 : seen.length); k++) {
+                        double at = seen == null ? lw[j] : seen[k];
+                        if (at < lo || at > hi) {
+                            continue;
                         }
-                        votes = Arrays.copyOf(votes, Math.min(2 * size, MAX_VOTES));
+                        if (size == votes.length) {
+                            if (size >= MAX_VOTES) {
+                                full = true;
+                                break;
+                            }
+                            votes = Arrays.copyOf(votes, Math.min(2 * size, MAX_VOTES));
+                        }
+                        votes[size++] = relative ? x / at - 1 : x - at;
                     }
-                    votes[size++] = relative ? x / lw[j] - 1 : x - lw[j];
                 }
             }
             if (!full) {
@@ -150,11 +188,13 @@ public final class ShiftSearch {
         return votes[bestStart + best / 2];
     }
 
-    private static Fit refine(Identifier identifier, PeakList peaks, LineCatalog lines, double shift, boolean relative) {
+    private static Refined refine(Identifier identifier, PeakList peaks, LineCatalog lines, double shift,
+            boolean relative) {
         LineCatalog moved = relative ? lines.shifted(shift) : lines.offset(shift);
         Identification matches = identifier.identify(peaks, moved);
         double sumW = 0;
         double sumWx = 0;
+        double sumWxx = 0;
         double sum = 0;
         double sumSq = 0;
         int count = 0;
@@ -174,6 +214,7 @@ public final class ShiftSearch {
             if (s > 0) {
                 sumW += 1 / (s * s);
                 sumWx += implied / (s * s);
+                sumWxx += implied * implied / (s * s);
             } else {
                 weighted = false;
             }
@@ -182,14 +223,16 @@ public final class ShiftSearch {
             count++;
         }
         if (count == 0) {
-            return new Fit(shift, Double.NaN, 0);
+            return new Refined(new Fit(shift, Double.NaN, 0), 0);
         }
         double mean = sum / count;
         if (weighted && sumW > 0) {
-            return new Fit(sumWx / sumW, 1 / Math.sqrt(sumW), count);
+            return new Refined(new Fit(sumWx / sumW, 1 / Math.sqrt(sumW), count),
+                    Math.max(0, sumWxx - sumWx * sumWx / sumW));
         }
         double variance = count > 1 ? (sumSq - count * mean * mean) / (count - 1) : Double.NaN;
-        return new Fit(mean, Math.sqrt(Math.max(variance, 0) / count), count);
+        return new Refined(new Fit(mean, Math.sqrt(Math.max(variance, 0) / count), count),
+                count > 1 ? Math.max(0, sumSq - count * mean * mean) : 0);
     }
 
     /** The vote window: the tolerance as a fraction of the wavelength, at the middle peak. */

@@ -147,4 +147,39 @@ class ResolvedComponentsTest {
         assertEquals(3, presence.strongMatched());
         assertArrayEquals(new int[0], result.missingStrongLines());
     }
+
+    @Test
+    void anImpreciseLineElsewhereDoesNotMergeTheGroups() {
+        // the same multiplet beside a line of another species known only to 7.5 pm: the groups
+        // part at each line's own tolerance, not at the least precise line's
+        LineCatalog one = triplet();
+        LineCatalog.Builder builder = LineCatalog.builder().add(Species.parse("Ne I"), 402.62e-9, 7.5e-12, 1, "vague");
+        builder.addBlend(HE, one.wavelength(0), 0, 1, "multiplet", one.componentPositions(0),
+                new double[one.componentPositions(0).length]);
+        LineCatalog catalog = builder.build();
+        double sigma = 0.5e-12;
+        double[] groups = catalog.positions(1, 5 * sigma);
+        assertEquals(3, groups.length);
+        PeakList resolved = peaks(sigma, 402.62e-9, groups[1], groups[2]);
+        Identification result = Identifier.of(Tolerance.kSigma(5)).identify(resolved, catalog);
+        for (int i = 0; i < 3; i++) {
+            assertEquals(Identification.MATCHED, result.status(i), "peak " + i);
+        }
+        assertEquals(groups[2], result.matchedPosition(2), 1e-18);
+    }
+
+    @Test
+    void aNarrowVelocitySearchFindsTheShiftFromResolvedGroupsAlone() {
+        // only the multiplet's two groups, at rest, searched over +-5 km/s: the centroid's votes
+        // alone put the shift at the main group's offset from the centroid (about -2 km/s)
+        LineCatalog catalog = triplet();
+        double sigma = 0.5e-12;
+        double[] groups = catalog.positions(0, 5 * sigma);
+        PeakList resolved = peaks(sigma, groups[1], groups[2]);
+        ShiftSearch.Fit fit = ShiftSearch.redshift(Identifier.of(Tolerance.kSigma(5)), resolved, catalog, 5e3);
+        assertEquals(0, fit.value(), 1e-12, "velocity " + fit.velocity());
+        assertEquals(2, fit.matches());
+        ShiftSearch.Fit offset = ShiftSearch.offset(Identifier.of(Tolerance.kSigma(5)), resolved, catalog, 0.01e-9);
+        assertEquals(0, offset.value(), 1e-18);
+    }
 }
