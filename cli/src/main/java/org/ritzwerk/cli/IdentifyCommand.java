@@ -77,9 +77,9 @@ final class IdentifyCommand implements Callable<Integer> {
     int nMax;
 
     @Option(names = "--intercombination",
-            description = "Level lists (He I, Sr I): also the lines the LS-coupling rules forbid where both levels give"
-                    + " a term (intercombination lines between singlets and triplets, such as Sr I 689.26 nm); by"
-                    + " default only the E1 and LS rules' lines.")
+            description = "Level lists (He I, Sr I): also the lines between terms of different spin (intercombination"
+                    + " lines between singlets and triplets, such as Sr I 689.26 nm), the other LS rules still applying;"
+                    + " by default only the E1 and LS rules' lines.")
     boolean intercombination;
 
     @Option(names = "--components",
@@ -332,13 +332,15 @@ final class IdentifyCommand implements Callable<Integer> {
                 + " lists bring their own)";
         rules.refuseUnless("--model", !resolved.ions().isEmpty(), noIon);
         rules.refuseUnless("--components", !resolved.ions().isEmpty(), noIon);
+        LevelSets.levelListsAndNMax(rules, !levelSets.others().isEmpty(), levelSets.levels(), nMax,
+                spec.commandLine().getErr());
         rules.refuseUnless("--intercombination", !levelSets.levels().isEmpty(), "without a species with a level list"
                 + " in --species (it lets through the level lists' lines that the LS-coupling rules forbid)");
         for (var levels : levelSets.levels()) {
             // Ritz lines under the E1 rules (and the LS rules unless --intercombination), with the
             // context's A values (He I: lines-he-i)
             builder.lineSet(LineSet.ofRitz(DataLines.ritzLines(data.context(), levels.species())
-                    .withLsRules(!intercombination).compute(levels)));
+                    .withLsRules(true).withIntercombination(intercombination).compute(levels)));
         }
         if (!levelSets.others().isEmpty()) {
             Ions.Atoms atoms = resolved;

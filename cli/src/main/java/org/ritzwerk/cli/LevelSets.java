@@ -71,16 +71,42 @@ final class LevelSets {
     /**
      * @param data    the data context (each species' companion line list of A values)
      * @param levels  level lists
-     * @param lsRules whether the LS-coupling rules apply where both levels give a term
-     * @return line sources giving their Ritz lines (E1 rules, LS rules if asked) with the A values
+     * @param intercombination whether lines between terms of different spin are let through (the
+     *                         other LS-coupling rules still apply where both levels give a term)
+     * @return line sources giving their Ritz lines (E1 and LS rules) with the A values
      *         of the context's companion line list ({@link DataLines#ritzLines})
      */
-    static LineSources sources(DataContext data, List<RitzLevels> levels, boolean lsRules) {
+    static LineSources sources(DataContext data, List<RitzLevels> levels, boolean intercombination) {
         LineSources sources = LineSources.none();
         for (RitzLevels set : levels) {
-            sources = sources.withLevels(set, DataLines.ritzLines(data, set.species()).withLsRules(lsRules));
+            sources = sources.withLevels(set, DataLines.ritzLines(data, set.species()).withLsRules(true)
+                    .withIntercombination(intercombination));
         }
         return sources;
+    }
+
+    /**
+     * {@code --n-max} for a command whose species may have level lists: refused when only level
+     * lists are given (their lines are those of every listed level; n is not read from the
+     * labels), and noted when computed species come with them.
+     *
+     * @param rules    the command's option rules
+     * @param computed whether a one-electron ion or alkali atom is among the species
+     * @param levels   the species' level lists
+     * @param nMax     the option's value
+     * @param err      where the note goes
+     */
+    static void levelListsAndNMax(OptionRules rules, boolean computed, List<RitzLevels> levels, int nMax,
+            PrintWriter err) {
+        if (levels.isEmpty()) {
+            return;
+        }
+        rules.refuseUnless("--n-max", computed, "for species with a level list " + names(levels)
+                + " (their lines are those of every listed level; n is not read from the labels)");
+        if (rules.given("--n-max")) {
+            err.println("note: --n-max " + nMax + " limits the computed species' lines, not those of " + names(levels)
+                    + " (every listed level gives its lines)");
+        }
     }
 
     /**

@@ -26,15 +26,15 @@ import picocli.CommandLine.Spec;
 /** {@code ritzwerk levels}: energy levels of one-electron ions and alkali atoms. */
 @Command(name = "levels",
         mixinStandardHelpOptions = true,
-        header = "Energy levels of one-electron ions and alkali atoms.",
+        header = "Energy levels of one-electron ions, alkali atoms and species with a level list.",
         description = "Energy levels of one-electron ions (H I, D I, He II, C VI, ... U XCII), in cm-1 above "
                 + "the ground state, under a chosen model: bohr (reduced mass), dirac (fine structure and "
                 + "recoil), qed (plus the leading Lamb shift and nuclear size), hyperfine (plus s-level "
                 + "hyperfine structure). Nuclear data from the built-in set (AME2020 masses, ...). Also the "
                 + "neutral alkali atoms (Li-6, Li-7, Na-23, K-39, K-40, K-41, Rb-85, Rb-87, Cs-133): measured "
                 + "low levels and quantum-defect (Rydberg-Ritz) levels up to --n-max, l <= --l-max; the model "
-                + "column says "
-                + "where each energy comes from.",
+                + "column says where each energy comes from. Species with a level list (He I, Sr I, or a "
+                + "ritzwerk-levels file given with --data) show every listed level.",
         footer = {"", "Examples:",
             "  ritzwerk levels --species \"H I\" --n-max 3",
             "  ritzwerk levels --species D --model hyperfine --n-max 2 --format json",
@@ -135,11 +135,12 @@ final class LevelsCommand implements Callable<Integer> {
                 : Math.max(4, atoms.alkalis().stream().mapToInt(a -> a.groundState().n() + 2).max().orElse(4));
         rules.refuseUnless("--temperature", lifetimes, "without --lifetimes (it sets the black-body temperature of the"
                 + " effective lifetimes)");
-        rules.refuseUnless("--temperature", alkali, "for one-electron ions (--species names no alkali atom; the"
-                + " effective lifetimes are computed for alkali atoms)");
-        rules.refuseUnless("--l-max", alkali, "for one-electron ions (--species names no alkali atom; every l of a"
-                + " one-electron ion up to n - 1 is listed)");
         String listed = levelSets.levels().stream().map(l -> l.species().notation()).toList().toString();
+        String notAlkali = atoms.ions().isEmpty() ? "for species with a level list " + listed : "for one-electron ions";
+        rules.refuseUnless("--temperature", alkali, notAlkali + " (--species names no alkali atom; the"
+                + " effective lifetimes are computed for alkali atoms)");
+        rules.refuseUnless("--l-max", alkali, notAlkali + " (--species names no alkali atom; every l of a"
+                + " one-electron ion up to n - 1 is listed, and every level of a level list)");
         rules.refuseUnless("--hyperfine", alkali, atoms.ions().isEmpty()
                 ? "for species with a level list " + listed + " (a level list carries no hyperfine constants;"
                         + " --hyperfine splits the levels of alkali atoms)"

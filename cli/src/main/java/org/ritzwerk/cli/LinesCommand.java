@@ -98,8 +98,9 @@ final class LinesCommand implements Callable<Integer> {
     Double fieldTesla;
 
     @Option(names = "--intercombination",
-            description = "Level lists (He I): also the lines the LS-coupling rules forbid where both levels give a "
-                    + "term (intercombination lines between singlets and triplets); by default only the E1 and LS rules' lines.")
+            description = "Level lists (He I, Sr I): also the lines between terms of different spin (intercombination "
+                    + "lines between singlets and triplets), the other LS rules (Delta L = 0, +-1) still applying; by "
+                    + "default only the E1 and LS rules' lines.")
     boolean intercombination;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
@@ -138,12 +139,9 @@ final class LinesCommand implements Callable<Integer> {
         rules.refuseUnless("--multiplets", !atoms.ions().isEmpty(), notIons + " (--species names no one-electron"
                 + " ion; their lines are listed by level)");
         rules.refuseUnless("--model", !atoms.ions().isEmpty(), notIons + " (--species names no one-electron ion)");
-        boolean computed = !atoms.ions().isEmpty() || !atoms.alkalis().isEmpty();
-        rules.refuseUnless("--n-max", computed || single, "for species with a level list " + listed
-                + " (their lines are those of every listed level; n is not read from the labels)");
-        if (lists && computed && rules.given("--n-max")) {
-            spec.commandLine().getErr().println("note: --n-max " + nMax + " limits the computed species' lines, not"
-                    + " those of " + listed + " (every listed level gives its lines)");
+        if (!single) {
+            LevelSets.levelListsAndNMax(rules, !atoms.ions().isEmpty() || !atoms.alkalis().isEmpty(),
+                    levelSets.levels(), nMax, spec.commandLine().getErr());
         }
         rules.refuseUnless("--intercombination", !levelSets.levels().isEmpty(), "without a species with a level list in"
                 + " --species (it lets through the level lists' lines that the LS-coupling rules forbid)");
@@ -186,7 +184,7 @@ final class LinesCommand implements Callable<Integer> {
         }
         LineQuery.Progress progress = progress();
         LevelSets.noteLevelsWithoutLines(levelSets.levels(), spec.commandLine().getErr());
-        LineSources listSources = LevelSets.sources(data.context(), levelSets.levels(), !intercombination);
+        LineSources listSources = LevelSets.sources(data.context(), levelSets.levels(), intercombination);
         if (minA > 0 && lists) {
             LevelSets.noteLinesWithoutA(query.withMinEinsteinA(0).run(listSources), minA, spec.commandLine().getErr());
         }

@@ -244,6 +244,8 @@ final class SynthCommand implements Callable<Integer> {
         rules.refuseUnless("--components", !resolved.isEmpty(), noIon + "it draws their fine structure)");
         rules.refuseUnless("--n-max", !ions.species.isEmpty(), "without --species (--lines lists bring their own"
                 + " lines)");
+        LevelSets.levelListsAndNMax(rules, !resolved.isEmpty() || !atoms.alkalis().isEmpty(), levelSets.levels(), nMax,
+                spec.commandLine().getErr());
         if (resolved.isEmpty() && atoms.alkalis().isEmpty() && levelSets.levels().isEmpty() && lineSets.isEmpty()) {
             throw new OptionException("give --species (one-electron ions, alkali atoms), --lines (line lists),"
                     + " or both");

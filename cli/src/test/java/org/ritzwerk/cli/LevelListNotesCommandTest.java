@@ -92,4 +92,26 @@ class LevelListNotesCommandTest {
         assertTrue(mixed.err().contains("not those of [He I]"), mixed.err());
         assertTrue(mixed.out().contains("1s7d 1D2 - 1s2p 1P1"), "He I n = 7 lines stay: " + mixed.out());
     }
+
+    @Test
+    void synthAndIdentifyRefuseNMaxForALevelListAlone(@org.junit.jupiter.api.io.TempDir java.nio.file.Path dir)
+            throws java.io.IOException {
+        // a review found both accepting --n-max 5 for He I and drawing the n = 6-10 lines all the same
+        CliTest.Run synth = CliTest.run("synth", "--species", "He I", "--from", "380 nm", "--to", "500 nm",
+                "--temperature", "20000", "--n-max", "5", "--no-noise", "--out", dir.resolve("he.csv").toString());
+        assertEquals(2, synth.code(), synth.out());
+        assertTrue(synth.err().contains("--n-max has no effect for species with a level list [He I]"), synth.err());
+        java.nio.file.Path peaks = dir.resolve("peaks.csv");
+        java.nio.file.Files.writeString(peaks, "# ritzwerk-peaks 1\n# id: he\n# title: invented\n# source: invented"
+                + "\n# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: air\nposition,uncertainty\n"
+                + "587.5621,0.002\n667.8152,0.002\n");
+        CliTest.Run identify = CliTest.run("identify", peaks.toString(), "--species", "He I", "--n-max", "5");
+        assertEquals(2, identify.code(), identify.out());
+        assertTrue(identify.err().contains("--n-max has no effect for species with a level list [He I]"),
+                identify.err());
+        CliTest.Run mixed = CliTest.run("identify", peaks.toString(), "--species", "He I,H I", "--n-max", "5");
+        assertEquals(0, mixed.code(), mixed.err());
+        assertTrue(mixed.err().contains("not those of [He I]") || mixed.out().contains("not those of [He I]"),
+                mixed.err());
+    }
 }

@@ -105,7 +105,7 @@ public final class DataLines {
      * @param species a species with a level list
      * @return the Ritz job for its lines: E1 rules and, where both labels give a term, the LS rules
      *         (as the {@code lines} and {@code identify} commands apply them; {@code
-     *         .withLsRules(false)} lets intercombination lines through), and the A values of the
+     *         .withIntercombination(true)} lets intercombination lines through), and the A values of the
      *         companion line list ({@link DataContext#transitionProbabilities}) where the context has
      *         one
      */

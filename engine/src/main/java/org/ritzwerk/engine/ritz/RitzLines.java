@@ -21,7 +21,10 @@ import org.ritzwerk.data.LineList;
  * Electric-dipole (E1) rules for any atom (common practice; e.g. R. D. Cowan, The Theory of Atomic
  * Structure and Spectra, University of California Press (1981)): the parity changes; {@code Delta J = 0, +-1}; not
  * {@code J = 0 -> 0}. With {@link #withLsRules(boolean) LS rules} on, and where both labels give a
- * term, also {@code Delta S = 0}, {@code Delta L = 0, +-1}, not {@code L = 0 -> 0}. A pair whose
+ * term, also {@code Delta S = 0}, {@code Delta L = 0, +-1}, not {@code L = 0 -> 0}; with
+ * {@link #withIntercombination(boolean) intercombination lines} let through, all but
+ * {@code Delta S = 0} (the spin-changing lines of intermediate coupling, such as Sr I 689.26 nm,
+ * keep the orbital rules). A pair whose
  * parity or J is not known for both levels is left out: a line is given only where the rules are
  * known to allow it; {@link #levelsWithoutLines} names the levels left out so, and why. Two levels
  * at the same energy give no line.
@@ -56,16 +59,20 @@ public final class RitzLines {
         }
     }
 
-    private static final RitzLines DEFAULTS = new RitzLines(false, 0, Double.POSITIVE_INFINITY, Map.of());
+    private static final RitzLines DEFAULTS = new RitzLines(false, false, 0, Double.POSITIVE_INFINITY, Map.of());
 
     private final boolean lsRules;
+    /** With the LS rules: whether Delta S != 0 is let through (the Delta L rules kept). */
+    private final boolean intercombination;
     private final double lowPerCm;
     private final double highPerCm;
     /** "upper|lower" and "lower|upper" labels -> A in s^-1. */
     private final Map<String, Double> einsteinA;
 
-    private RitzLines(boolean lsRules, double lowPerCm, double highPerCm, Map<String, Double> einsteinA) {
+    private RitzLines(boolean lsRules, boolean intercombination, double lowPerCm, double highPerCm,
+            Map<String, Double> einsteinA) {
         this.lsRules = lsRules;
+        this.intercombination = intercombination;
         this.lowPerCm = lowPerCm;
         this.highPerCm = highPerCm;
         this.einsteinA = einsteinA;
@@ -81,7 +88,16 @@ public final class RitzLines {
      * @return this job so
      */
     public RitzLines withLsRules(boolean on) {
-        return new RitzLines(on, lowPerCm, highPerCm, einsteinA);
+        return new RitzLines(on, intercombination, lowPerCm, highPerCm, einsteinA);
+    }
+
+    /**
+     * @param on whether, under the LS rules, lines between terms of different spin are let
+     *           through (intercombination lines), the {@code Delta L} rules still applying
+     * @return this job so
+     */
+    public RitzLines withIntercombination(boolean on) {
+        return new RitzLines(lsRules, on, lowPerCm, highPerCm, einsteinA);
     }
 
     /**
@@ -94,7 +110,7 @@ public final class RitzLines {
             throw new IllegalArgumentException(String.format(Locale.ROOT,
                     "a wavenumber window needs 0 <= from < to (cm-1), got %s to %s", fromPerCm, toPerCm));
         }
-        return new RitzLines(lsRules, fromPerCm, toPerCm, einsteinA);
+        return new RitzLines(lsRules, intercombination, fromPerCm, toPerCm, einsteinA);
     }
 
     /**
@@ -111,7 +127,7 @@ public final class RitzLines {
                 a.put(companion.lower(i).strip() + "|" + companion.upper(i).strip(), value);
             }
         }
-        return new RitzLines(lsRules, lowPerCm, highPerCm, Map.copyOf(a));
+        return new RitzLines(lsRules, intercombination, lowPerCm, highPerCm, Map.copyOf(a));
     }
 
     /**
@@ -123,6 +139,19 @@ public final class RitzLines {
      * @return whether the rules are known to allow a line between them
      */
     public static boolean allowed(LevelDesignation a, LevelDesignation b, boolean lsRules) {
+        return allowed(a, b, lsRules, false);
+    }
+
+    /**
+     * The rules of the class comment, with intercombination lines let through or not.
+     *
+     * @param a                one level
+     * @param b                the other
+     * @param lsRules          whether the LS rules apply (where both give a term)
+     * @param intercombination whether, under them, Delta S != 0 is let through
+     * @return whether the rules are known to allow a line between them
+     */
+    public static boolean allowed(LevelDesignation a, LevelDesignation b, boolean lsRules, boolean intercombination) {
         if (!a.hasParity() || !b.hasParity() || a.parity() == b.parity() || !a.hasJ() || !b.hasJ()) {
             return false;
         }
@@ -130,7 +159,8 @@ public final class RitzLines {
             return false;
         }
         if (lsRules && a.hasTerm() && b.hasTerm()) {
-            return a.multiplicity() == b.multiplicity() && Math.abs(a.l() - b.l()) <= 1 && !(a.l() == 0 && b.l() == 0);
+            return (intercombination || a.multiplicity() == b.multiplicity()) && Math.abs(a.l() - b.l()) <= 1
+                    && !(a.l() == 0 && b.l() == 0);
         }
         return true;
     }
@@ -168,7 +198,7 @@ public final class RitzLines {
             for (int j = 0; j < n; j++) {
                 double wavenumber = levels.energyPerCm(i) - levels.energyPerCm(j);
                 if (!(wavenumber > 0) || wavenumber < lowPerCm || wavenumber > highPerCm
-                        || !allowed(levels.designation(i), levels.designation(j), lsRules)) {
+                        || !allowed(levels.designation(i), levels.designation(j), lsRules, intercombination)) {
                     continue;
                 }
                 double a = einsteinA.getOrDefault(levels.label(i) + "|" + levels.label(j), Double.NaN);
@@ -188,7 +218,8 @@ public final class RitzLines {
 
     @Override
     public String toString() {
-        return "RitzLines[" + (lsRules ? "E1 and LS rules" : "E1 rules") + ", " + lowPerCm + " to " + highPerCm
+        String rules = !lsRules ? "E1 rules" : intercombination ? "E1 and LS rules but Delta S" : "E1 and LS rules";
+        return "RitzLines[" + rules + ", " + lowPerCm + " to " + highPerCm
                 + " cm-1" + (einsteinA.isEmpty() ? "" : ", " + einsteinA.size() / 2 + " A values") + "]";
     }
 }

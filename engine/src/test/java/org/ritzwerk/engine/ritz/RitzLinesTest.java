@@ -171,6 +171,23 @@ class RitzLinesTest {
     }
 
     @Test
+    void intercombinationLinesKeepTheOrbitalRules() {
+        // invented levels: a spin-changing line with Delta L = 1 (3P1 - 1S0) is let through, a
+        // Delta L = 3 line of the same spin (4s5g 3G3 - 4s4p 3P2: parity changes, Delta J = 1) is not
+        // (LS rules, common practice; Cowan 1981)
+        RitzLevels levels = RitzLevels.builder(X).add("4s2 1S0", 0, 1e-3, -1).add("4s4p 3P1", 15210, 1e-3, -1)
+                .add("4s4p 3P2", 15316, 1e-3, -1).add("4s5g 3G3", 42000, 1e-3, -1).build();
+        Set<String> got = new HashSet<>();
+        RitzTransitions lines = RitzLines.defaults().withLsRules(true).withIntercombination(true).compute(levels);
+        for (int i = 0; i < lines.size(); i++) {
+            got.add(levels.label(lines.upper(i)) + " - " + levels.label(lines.lower(i)));
+        }
+        assertEquals(Set.of("4s4p 3P1 - 4s2 1S0"), got);
+        assertTrue(RitzLines.allowed(LevelDesignation.parse("4s5g 3G3", -1), LevelDesignation.parse("4s4p 3P2", -1),
+                false), "the E1 rules alone let the Delta L = 3 pair through");
+    }
+
+    @Test
     void uncertaintiesFollowTheCovariance() {
         RitzLevels plain = RitzLevels.builder(X).add("5s2 1S0", 0, 0.003, -1).add("5s5p 1P1", 21698.452, 0.004, -1)
                 .build();
