@@ -93,7 +93,9 @@ public final class SpectralArrays {
                 }
             }
         } catch (MediumException e) {
-            throw new MediumException(e.code(), "element " + i + ": " + e.getMessage());
+            // (a single value needs no index: its caller names where it came from)
+            throw new MediumException(e.code(), values.length == 1 ? e.getMessage() : "element " + i + ": "
+                    + e.getMessage());
         }
     }
 

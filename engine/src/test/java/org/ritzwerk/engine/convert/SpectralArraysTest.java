@@ -82,6 +82,10 @@ class SpectralArraysTest {
                 new double[2]));
         assertTrue(outside.getMessage().startsWith("element 1: wavelength 150 nm (air) is outside"),
                 outside.getMessage());
+        // one value alone: its caller names where it came from (a file's line and column)
+        MediumException one = assertThrows(MediumException.class, () -> SpectralArrays.convert(
+                new double[] {150}, Unit.NANOMETRE, Medium.air(), Unit.NANOMETRE, Medium.vacuum(), new double[1]));
+        assertTrue(one.getMessage().startsWith("wavelength 150 nm (air) is outside"), one.getMessage());
     }
 
     @Test
