@@ -101,6 +101,7 @@ final class LevelsCommand implements Callable<Integer> {
                 Table.Column.text("hyperfine_f", "F"),
                 Table.Column.text("g", "g"),
                 Table.Column.number("energy_per_cm", "energy cm-1", "%.7f"),
+                Table.Column.number("uncertainty_per_cm", "u cm-1", "%.2g"),
                 Table.Column.text("model", "model")));
         if (lifetimes) {
             columns.add(Table.Column.number("lifetime_s", "lifetime s", "%.5e"));
@@ -198,7 +199,8 @@ final class LevelsCommand implements Callable<Integer> {
                         Object[] row = {part.species(i).notation(), part.label(i), boxed(part.n(i)), boxed(part.l(i)),
                             part.twoJ(i).isPresent() ? Notation.half(part.twoJ(i).getAsInt()) : null,
                             part.twoF(i).isPresent() ? Notation.half(part.twoF(i).getAsInt()) : null,
-                            boxed(part.statisticalWeight(i)), part.energyPerCm(i), part.model(i),
+                            boxed(part.statisticalWeight(i)), part.energyPerCm(i),
+                            boxed(part.energyUncertaintyPerCm(i)), part.model(i),
                             boxed(part.lifetimeSeconds(i)), boxed(part.effectiveLifetimeSeconds(i))};
                         table.add(Arrays.copyOf(row, columns.size()));
                         if (hyperfine && part.twoF(i).isEmpty() && atoms.ions().isEmpty()) {
