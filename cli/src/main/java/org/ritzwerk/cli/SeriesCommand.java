@@ -325,7 +325,7 @@ final class SeriesCommand implements Callable<Integer> {
                     Table.Column.text("n", "n"), Table.Column.number("energy_per_cm", "energy cm-1", "%.6f"),
                     Table.Column.number("uncertainty_per_cm", "u cm-1", "%.3g"),
                     Table.Column.number("scaled_uncertainty_per_cm", "u x S cm-1", "%.3g"),
-                    Table.Column.number("truncation_per_cm", "of which trunc. cm-1", "%.3g"),
+                    Table.Column.number("truncation_per_cm", "trunc. cm-1", "%.3g"),
                     Table.Column.number("quantum_defect", "defect", "%.6f"), Table.Column.text("note", "note")),
                     out, format);
             for (SeriesFit.Prediction p : predictions) {

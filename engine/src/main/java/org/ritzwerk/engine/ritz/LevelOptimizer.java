@@ -376,8 +376,8 @@ public final class LevelOptimizer {
             double u = problem.uncertaintyPerCm(k);
             if (u < RELATIVE_FLOOR * scale) {
                 throw new RitzException(RitzException.BAD_VALUE, String.format(Locale.ROOT, "line %d (%s): its "
-                        + "uncertainty %.3g cm-1 is below %.0e of the level energies' scale %.6g cm-1 (reference energy "
-                        + "plus the largest wavenumber), finer than double precision carries through the fit; "
+                        + "uncertainty %.3g cm-1 is below %.0e of the level energies' scale %.6g cm-1 "
+                        + "(reference energy plus the largest wavenumber), finer than double precision carries through the fit; "
                         + "give an uncertainty of at least %.3g cm-1", k + 1, problem.name(k), u, RELATIVE_FLOOR,
                         scale, RELATIVE_FLOOR * scale));
             }

@@ -160,7 +160,8 @@ class LevelOptimizerTest {
         for (int k = 0; k < PAIRS.length; k++) {
             above.add(label(PAIRS[k][0]), label(PAIRS[k][1]), TRUE[PAIRS[k][0]] - TRUE[PAIRS[k][1]], SIGMA[k]);
         }
-        RitzException refused = assertThrows(RitzException.class, () -> LevelOptimizer.defaults().optimize(above.build()));
+        RitzException refused = assertThrows(RitzException.class,
+                () -> LevelOptimizer.defaults().optimize(above.build()));
         assertTrue(refused.getMessage().startsWith("level 'L0' came out at -22000.250000"), refused.getMessage());
         LevelOptimum shifted = LevelOptimizer.defaults().withLevelsBelowZero(true).optimize(above.build());
         RitzException below = assertThrows(RitzException.class, () -> shifted.levels(Species.parse("Fe I")));
