@@ -40,7 +40,10 @@ import org.apache.commons.math4.legacy.linear.SingularMatrixException;
  * {@link #withOutlierThreshold the threshold} (3 unless set) is left out and the levels are fitted
  * again, until no kept line exceeds it. A misassigned line drags the levels it touches, so the other
  * lines' residuals are only meaningful once it is out; one line at a time keeps an honest line from
- * being left out with it. The levels, their covariance, chi^2 and the degrees of freedom come from the
+ * being left out with it. Between removals the fit is not redone from scratch but downdated by one
+ * line (a rank-one update of the covariance, exact but for rounding); once no line exceeds the
+ * threshold the kept lines are fitted from scratch and judged again, so the result is that of a fit
+ * of the lines kept. The levels, their covariance, chi^2 and the degrees of freedom come from the
  * lines kept; every line, kept or not, has its residual against that final fit. A line left out is
  * flagged {@link LevelOptimum.LineFlag#OUTLIER} ({@link LevelOptimum#leftOut()} in the order they
  * were left out) and its normalised residual is {@code r_k / sqrt(u_k^2 + u_Ritz,k^2)}, a prediction
@@ -70,7 +73,7 @@ import org.apache.commons.math4.legacy.linear.SingularMatrixException;
  */
 public final class LevelOptimizer {
 
-    private static final LevelOptimizer DEFAULTS = new LevelOptimizer(3.0, false);
+    private static final LevelOptimizer DEFAULTS = new LevelOptimizer(3.0, false, true);
     /** An uncertainty below this fraction of the energy scale is refused (see the class comment). */
     static final double RELATIVE_FLOOR = 1e-12;
     /** Uncertainties more than this factor apart are refused (see the class comment). */
@@ -78,10 +81,17 @@ public final class LevelOptimizer {
 
     private final double threshold;
     private final boolean relative;
+    private final boolean downdate;
 
-    private LevelOptimizer(double threshold, boolean relative) {
+    private LevelOptimizer(double threshold, boolean relative, boolean downdate) {
         this.threshold = threshold;
         this.relative = relative;
+        this.downdate = downdate;
+    }
+
+    /** @return this optimizer refitting from scratch after every line left out (for tests: the plain method) */
+    LevelOptimizer withFullRefits() {
+        return new LevelOptimizer(threshold, relative, false);
     }
 
     /** @return an optimizer leaving out lines beyond 3 standard deviations, one at a time */
@@ -97,7 +107,7 @@ public final class LevelOptimizer {
         if (!(deviations > 0) || Double.isInfinite(deviations)) {
             throw new IllegalArgumentException("the outlier threshold must be finite and positive, got " + deviations);
         }
-        return new LevelOptimizer(deviations, relative);
+        return new LevelOptimizer(deviations, relative, downdate);
     }
 
     /**
@@ -108,7 +118,7 @@ public final class LevelOptimizer {
      * @return this optimizer with that setting
      */
     public LevelOptimizer withLevelsBelowZero(boolean allowed) {
-        return new LevelOptimizer(threshold, allowed);
+        return new LevelOptimizer(threshold, allowed, downdate);
     }
 
     /** @return whether levels may come out below 0 ({@link #withLevelsBelowZero}) */
@@ -147,6 +157,7 @@ public final class LevelOptimizer {
         int[] partner = new int[lines];
         Arrays.fill(partner, -1);
         Fit fit = solve(problem, kept);
+        boolean fresh = true;
         // iterative data snooping: leave out the worst line beyond the threshold, fit again
         while (true) {
             int worst = -1;
@@ -159,7 +170,13 @@ public final class LevelOptimizer {
                 }
             }
             if (worst < 0) {
-                break;
+                if (fresh) {
+                    break;
+                }
+                // the downdated fit carries rounding: judge the lines kept once more on a fit from scratch
+                fit = solve(problem, kept);
+                fresh = true;
+                continue;
             }
             List<Integer> mirrors = fit.mirrors(problem, kept, worst);
             if (!mirrors.isEmpty()) {
@@ -183,7 +200,9 @@ public final class LevelOptimizer {
             }
             kept[worst] = false;
             leftOut.add(worst);
-            fit = solve(problem, kept);
+            Fit next = downdate ? fit.without(problem, worst) : null;
+            fresh = next == null;
+            fit = fresh ? solve(problem, kept) : next;
         }
         double[] ritz = new double[lines];
         double[] ritzSigma = new double[lines];
@@ -235,6 +254,42 @@ public final class LevelOptimizer {
         Fit(double[] energy, double[][] covariance) {
             this.energy = energy;
             this.covariance = covariance;
+        }
+
+        /**
+         * The fit without line k by a rank-one downdate of the covariance (Sherman-Morrison, from memory;
+         * the leave-one-out update of least squares, Cook and Weisberg 1982, ch. 2): with {@code g = C a},
+         * {@code h = w a^T C a}, {@code w = 1 / u_k^2} and the residual r, {@code C' = C + g g^T w / (1 - h)}
+         * and {@code E' = E - g w r / (1 - h)}; O(levels^2) where a refit costs a QR of lines x levels.
+         *
+         * @return the downdated fit, or null where {@code 1 - h < 1e-3} (a line close to alone setting a level:
+         *         the update would lose digits, so the caller refits)
+         */
+        Fit without(MeasuredLines problem, int k) {
+            int u = problem.upper(k);
+            int l = problem.lower(k);
+            double s = problem.uncertaintyPerCm(k);
+            double w = 1 / (s * s);
+            int n = energy.length;
+            double[] g = new double[n];
+            for (int i = 0; i < n; i++) {
+                g[i] = covariance[i][u] - covariance[i][l];
+            }
+            double h = w * (g[u] - g[l]);
+            if (!(1 - h >= 1e-3)) {
+                return null;
+            }
+            double f = w / (1 - h);
+            double r = problem.wavenumberPerCm(k) - (energy[u] - energy[l]);
+            double[] e = energy.clone();
+            double[][] c = new double[n][n];
+            for (int i = 0; i < n; i++) {
+                e[i] -= g[i] * f * r;
+                for (int j = 0; j < n; j++) {
+                    c[i][j] = covariance[i][j] + f * g[i] * g[j];
+                }
+            }
+            return new Fit(e, c);
         }
 
         /** @return the variance of {@code E_u - E_l}, cm^-2 (rounding below 0 taken as 0) */
@@ -377,7 +432,8 @@ public final class LevelOptimizer {
             if (u < RELATIVE_FLOOR * scale) {
                 throw new RitzException(RitzException.BAD_VALUE, String.format(Locale.ROOT, "line %d (%s): its "
                         + "uncertainty %.3g cm-1 is below %.0e of the level energies' scale %.6g cm-1 "
-                        + "(reference energy plus the largest wavenumber), finer than double precision carries through the fit; "
+                        + "(reference energy plus the largest wavenumber), finer than double precision carries through "
+                        + "the fit; "
                         + "give an uncertainty of at least %.3g cm-1", k + 1, problem.name(k), u, RELATIVE_FLOOR,
                         scale, RELATIVE_FLOOR * scale));
             }
