@@ -66,8 +66,10 @@ final class SeriesCommand implements Callable<Integer> {
 
     @Option(names = "--predict", paramLabel = "N[,N...]", split = ",",
             description = "Also give these members of every series (energy, uncertainty, defect). Where a series "
-                    + "has no level at an n (n - delta(n) not positive) it says so in a note and the other series "
-                    + "are still predicted; an n below a series' lowest member is noted (extrapolated downwards).")
+                    + "is not physically ordered from the n up through its members (n - delta(n) not positive, "
+                    + "energy not rising, at or above the limit, or below the ground level) the prediction is "
+                    + "withheld with a note and the other series are still predicted; below a series' lowest "
+                    + "member the uncertainty includes the defect expansion's truncation (noted).")
     List<Integer> predict = new ArrayList<>();
 
     @Option(names = "--plot", paramLabel = "FILE.png",
@@ -257,7 +259,8 @@ final class SeriesCommand implements Callable<Integer> {
                     fit.degreesOfFreedom(), limit.isEmpty() ? null : limit.get(0) + " +- " + limit.get(1) + " cm-1",
                     fit.chiSquareProbability().isPresent() ? fit.chiSquareProbability().getAsDouble() : null,
                     fit.chiSquareProbability().isEmpty() ? "no degrees of freedom"
-                            : fit.isImprobable() ? "improbable" : "consistent", fit.uncertaintyScale());
+                            : fit.isImprobable() ? "improbable" : fit.isTooGood() ? "too-good" : "consistent",
+                    fit.uncertaintyScale());
             summary.finish();
         }
         Table parameters = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("parameter", "parameter"),
@@ -322,17 +325,18 @@ final class SeriesCommand implements Callable<Integer> {
                     Table.Column.text("n", "n"), Table.Column.number("energy_per_cm", "energy cm-1", "%.6f"),
                     Table.Column.number("uncertainty_per_cm", "u cm-1", "%.3g"),
                     Table.Column.number("scaled_uncertainty_per_cm", "u x S cm-1", "%.3g"),
+                    Table.Column.number("truncation_per_cm", "trunc. cm-1", "%.3g"),
                     Table.Column.number("quantum_defect", "defect", "%.6f"), Table.Column.text("note", "note")),
                     out, format);
             for (SeriesFit.Prediction p : predictions) {
                 String name = fit.series().get(p.series()).name();
                 if (p.member().isEmpty()) {
-                    predicted.add("prediction", name, p.n(), null, null, null, null, "no member (see note)");
+                    predicted.add("prediction", name, p.n(), null, null, null, null, null, "withheld (see note)");
                     continue;
                 }
                 SeriesFit.Member m = p.member().get();
-                predicted.add("prediction", name, p.n(), m.energyPerCm(), m.uncertaintyPerCm(),
-                        scale * m.uncertaintyPerCm(), m.quantumDefect(),
+                predicted.add("prediction", name, p.n(), m.energyPerCm(), p.uncertaintyPerCm(1),
+                        p.uncertaintyPerCm(scale), p.truncationPerCm(), m.quantumDefect(),
                         p.note().isPresent() ? "below the measured members" : null);
             }
             predicted.finish();
@@ -361,7 +365,9 @@ final class SeriesCommand implements Callable<Integer> {
         double p = fit.chiSquareProbability().getAsDouble();
         return fit.isImprobable() ? String.format(java.util.Locale.ROOT, " (probability %s: IMPROBABLE, see the "
                 + "notes; u x S scales the uncertainties by S = %.4g)", SeriesFit.probabilityText(p),
-                fit.uncertaintyScale()) : String.format(java.util.Locale.ROOT, " (probability %.2g)", p);
+                fit.uncertaintyScale()) : fit.isTooGood() ? String.format(java.util.Locale.ROOT, " (probability %.2g: "
+                + "TOO GOOD, the uncertainties look overstated; see the notes)", p)
+                : String.format(java.util.Locale.ROOT, " (probability %.2g)", p);
     }
 
     private void section(boolean text, String title) {

@@ -159,4 +159,48 @@ class FitLevelsCommandTest {
                 + " lines (0 left out); chi2 = "), text.out());
         assertTrue(text.out().contains("Ritz air nm"), text.out());
     }
+
+    /**
+     * The reviewer's revonly.csv (invented He I-like wavenumbers): a level set by one line entered reversed came
+     * out below the ground level with exit 0; now refused naming the level and the line. Its rev.csv (the
+     * reversal contradicted by other lines) is still refused as before, and the JSON extreme.json (u = 1e-300)
+     * is refused naming the line instead of "came out at NaN cm-1".
+     */
+    @Test
+    void aLevelBelowTheGroundLevelAndUncertaintiesTooFineAreRefused(@TempDir Path dir) throws IOException {
+        Path revonly = dir.resolve("revonly.csv");
+        Files.writeString(revonly, "# ritzwerk-measured-lines 1\n# position-unit: cm-1\n"
+                + "position,uncertainty,upper,lower\n4857.4567,0.0010,1s2s 1S0,1s2p 1P1\n"
+                + "19931.9248,0.0010,1s3p 1P1,1s2s 1S0\n");
+        CliTest.Run below = CliTest.run("fit-levels", revonly.toString(), "--reference", "1s2s 1S0");
+        assertNotEquals(0, below.code());
+        assertTrue(below.err().contains("level '1s2p 1P1' came out at -4857.456700")
+                && below.err().contains("revonly.csv:4: upper '1s2s 1S0', lower '1s2p 1P1'")
+                && below.err().contains("may be reversed"), below.err());
+        Path rev = dir.resolve("rev.csv");
+        Files.writeString(rev, "# ritzwerk-measured-lines 1\n# position-unit: cm-1\n"
+                + "position,uncertainty,upper,lower\n4857.4567,0.0010,1s2p 1P1,1s2s 1S0\n"
+                + "19931.9248,0.0010,1s3p 1P1,1s2s 1S0\n15074.4690,0.0015,1s2p 1P1,1s3p 1P1\n");
+        CliTest.Run reversed = CliTest.run("fit-levels", rev.toString(), "--reference", "1s2s 1S0");
+        assertNotEquals(0, reversed.code());
+        assertTrue(reversed.err().contains("rev.csv:6): its upper level '1s2p 1P1'"), reversed.err());
+        Path extreme = dir.resolve("extreme.json");
+        Files.writeString(extreme, "{\"format\":\"ritzwerk-measured-lines\",\"formatVersion\":1,"
+                + "\"positionUnit\":\"cm-1\",\"lines\":[{\"position\":100,\"uncertainty\":1e-300,\"upper\":\"B\","
+                + "\"lower\":\"A\"},{\"position\":200,\"uncertainty\":1e300,\"upper\":\"C\",\"lower\":\"A\"},"
+                + "{\"position\":100,\"uncertainty\":1e-300,\"upper\":\"C\",\"lower\":\"B\"}]}");
+        CliTest.Run fine = CliTest.run("fit-levels", extreme.toString(), "--reference", "A");
+        assertNotEquals(0, fine.code());
+        assertTrue(fine.err().contains("extreme.json:1): its uncertainty 1.00e-300 cm-1 is below 1e-12")
+                && !fine.err().contains("NaN"), fine.err());
+        // the JSON form needs format and formatVersion (README): without them, each is named
+        Path bare = dir.resolve("bare.json");
+        Files.writeString(bare, "{\"positionUnit\":\"cm-1\",\"lines\":[{\"position\":100,\"uncertainty\":1,"
+                + "\"upper\":\"B\",\"lower\":\"A\"}]}");
+        CliTest.Run noVersion = CliTest.run("fit-levels", bare.toString(), "--reference", "A");
+        assertNotEquals(0, noVersion.code());
+        assertTrue(noVersion.err().contains("'formatVersion' must be 1")
+                && noVersion.err().contains("'format' must be"),
+                noVersion.err());
+    }
 }

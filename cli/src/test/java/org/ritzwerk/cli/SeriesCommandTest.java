@@ -261,7 +261,7 @@ class SeriesCommandTest {
      * The example's members (exact, u = 1e-4 cm^-1) with nS1/2 n = 30 moved by +5 cm^-1: the fit is
      * improbable, and the command says so (summary, notes on standard error, the fit row's quality and
      * probability), shows the uncertainties scaled by S = sqrt(chi2 / dof), and flags the moved member
-     * first; the unmoved file is consistent and flags nothing.
+     * first; the unmoved file (computed members) is too good and flags no member.
      */
     @Test
     void anImprobableFitIsSaidAndItsWrongMemberFlagged(@TempDir Path dir) throws IOException {
@@ -322,13 +322,19 @@ class SeriesCommandTest {
         }
         assertTrue(scale > 1 && flaggedMoved, run.out());
 
+        // the unmoved file's members are computed (no noise): chi2 6.7e-15 for 17 dof is too good, and said so in
+        // the one note, the fit row's quality and the summary; S below 1 is not applied (common practice)
         CliTest.Run clean = CliTest.run("series", file.toString(), "--format", "json");
         assertEquals(0, clean.code(), clean.err());
-        assertFalse(clean.err().contains("note:"), clean.err());
+        assertEquals(1, clean.err().split("note:", -1).length - 1, clean.err());
+        assertTrue(clean.err().startsWith("note: the fit is too good: chi2 = ")
+                && clean.err().contains("the uncertainties look overstated"), clean.err());
+        assertTrue(CliTest.run("series", file.toString()).out()
+                .contains("TOO GOOD, the uncertainties look overstated"));
         for (String row : clean.out().strip().split("\\R")) {
             JsonNode node = json.readTree(row);
             if (node.get("kind").asString().equals("fit")) {
-                assertEquals("consistent", node.get("fit_quality").asString());
+                assertEquals("too-good", node.get("fit_quality").asString());
                 assertEquals(1.0, node.get("uncertainty_scale").asDouble());
             } else if (node.get("kind").asString().equals("member")) {
                 assertTrue(node.get("flag").isNull(), row);
@@ -356,5 +362,35 @@ class SeriesCommandTest {
         CliTest.Run none = CliTest.run("series", dir.resolve("missing.csv").toString());
         assertEquals(2, none.code());
         assertTrue(none.err().contains("missing.csv: no such file"), none.err());
+    }
+
+    /**
+     * The reviewer's --predict 4,5,6 on the example: 4s (below the ground level) is withheld with no value,
+     * and 5s, whose stated uncertainty was 31.5 cm-1 at 476 cm-1, now carries the expansion's truncation and
+     * covers the real 5s at 0 (Rb I ground level, by definition).
+     */
+    @Test
+    void predictionsBelowTheMembersAreWithheldOrCarryTheTruncation(@TempDir Path dir) throws IOException {
+        Path file = example(dir);
+        CliTest.Run run = CliTest.run("series", file.toString(), "--predict", "4,5,6", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.err().contains("note: --predict 4: series nS1/2 at n = 4 comes out below the ground level"),
+                run.err());
+        JsonMapper json = JsonMapper.builder().build();
+        int seen = 0;
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode row = json.readTree(line);
+            if (!row.get("kind").asString().equals("prediction")) {
+                continue;
+            }
+            boolean fourS = row.get("series").asString().equals("nS1/2") && row.get("n").asInt() == 4;
+            assertEquals(fourS, row.get("energy_per_cm").isNull(), line);
+            if (row.get("series").asString().equals("nS1/2") && row.get("n").asInt() == 5) {
+                assertTrue(Math.abs(row.get("energy_per_cm").asDouble()) <= row.get("uncertainty_per_cm").asDouble()
+                        && row.get("truncation_per_cm").asDouble() > 100, line);
+                seen++;
+            }
+        }
+        assertEquals(1, seen, run.out());
     }
 }

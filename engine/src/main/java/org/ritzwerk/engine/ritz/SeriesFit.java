@@ -36,6 +36,11 @@ public final class SeriesFit {
     public static final double OUTLIER_SIGMA = 3;
     /** A fit whose chi-square probability is below this is improbable (common practice: 0.1 %). */
     public static final double IMPROBABLE_PROBABILITY = 1e-3;
+    /**
+     * A fit whose chance of a chi^2 at most as large is below this is too good: the stated
+     * uncertainties look overstated (common practice: the lower tail at the same 0.1 %).
+     */
+    public static final double TOO_GOOD_PROBABILITY = 1e-3;
 
     /**
      * One model the fitter tried.
@@ -72,17 +77,29 @@ public final class SeriesFit {
     }
 
     /**
-     * A prediction asked of one series ({@link #predictions}): the member where the series has one,
-     * and a note where it has none or where the defect expansion is extrapolated below the lowest
-     * measured member.
+     * A prediction asked of one series ({@link #predictions}): the member where the fitted series is
+     * physically ordered there, and a note where it is not or where the defect expansion is
+     * extrapolated below the lowest measured member.
      *
-     * @param series the series index
-     * @param n      the principal quantum number asked
-     * @param member the predicted member, or empty where the fitted defect leaves no level
-     * @param note   why there is no member, or that the prediction lies below the measured members;
-     *               empty otherwise
+     * @param series          the series index
+     * @param n               the principal quantum number asked
+     * @param member          the predicted member (its uncertainty from the fit's covariance alone), or empty
+     *                        where the prediction is withheld
+     * @param truncationPerCm the standard uncertainty added for the truncation of the defect expansion below
+     *                        the lowest measured member, cm^-1 (0 at or above it, and without a member)
+     * @param note            why there is no member, or that the prediction lies below the measured
+     *                        members; empty otherwise
      */
-    public record Prediction(int series, int n, Optional<Member> member, Optional<String> note) {
+    public record Prediction(int series, int n, Optional<Member> member, double truncationPerCm,
+            Optional<String> note) {
+
+        /**
+         * @param scale the factor for the fit's part (1, or {@link #uncertaintyScale()})
+         * @return {@code sqrt((scale u_fit)^2 + u_truncation^2)}, cm^-1, or NaN without a member
+         */
+        public double uncertaintyPerCm(double scale) {
+            return member.map(m -> Math.hypot(scale * m.uncertaintyPerCm(), truncationPerCm)).orElse(Double.NaN);
+        }
     }
 
     /**
@@ -271,11 +288,36 @@ public final class SeriesFit {
     }
 
     /**
+     * The chance of a chi^2 at most this large for members that follow the fitted model with their
+     * stated uncertainties, {@code P(dof / 2, chi^2 / 2)} (the regularized lower incomplete gamma
+     * function, Apache Commons Numbers 1.1 {@code RegularizedGamma.P}; common practice).
+     *
+     * @return the probability, 0 to 1, or empty without degrees of freedom
+     */
+    public OptionalDouble lowerChiSquareProbability() {
+        int dof = degreesOfFreedom();
+        return dof > 0 ? OptionalDouble.of(RegularizedGamma.P.value(dof / 2.0, chiSquare / 2))
+                : OptionalDouble.empty();
+    }
+
+    /**
+     * @return whether a chi^2 this small has a chance below {@value #TOO_GOOD_PROBABILITY}
+     *         ({@link #lowerChiSquareProbability()}): the members agree with the model far better than
+     *         their stated uncertainties allow, so those look overstated (or the members are not
+     *         independent measurements, e.g. computed); the stated uncertainties of the fit are then
+     *         too large, and {@link #uncertaintyScale()} does not shrink them
+     */
+    public boolean isTooGood() {
+        return lowerChiSquareProbability().orElse(1) < TOO_GOOD_PROBABILITY;
+    }
+
+    /**
      * The scale factor {@code S = sqrt(chi^2 / dof)} where above 1, else 1 (and 1 without degrees of
      * freedom): common practice (the Birge ratio; the Particle Data Group's scale factor) multiplies
      * every stated uncertainty by S when the data scatter more than their uncertainties say. It
      * assumes the model right and every uncertainty understated by one factor; it does not rescue an
-     * outlier or a wrong model.
+     * outlier or a wrong model. An S below 1 is not applied (common practice, as the Particle Data
+     * Group does): a fit better than its uncertainties is flagged instead ({@link #isTooGood()}).
      *
      * @return S, at least 1
      */
@@ -325,6 +367,13 @@ public final class SeriesFit {
                         + "from an improbable fit: extra terms may only absorb a wrong member; fix them (--terms, "
                         + "SeriesFitter.withTerms) once the data are mended");
             }
+        }
+        if (isTooGood()) {
+            notes.add(String.format(Locale.ROOT, "the fit is too good: chi2 = %.4g for %d degrees of freedom has a "
+                    + "chance of %s of being this small for members that follow the Rydberg-Ritz formula with "
+                    + "their stated uncertainties: the uncertainties look overstated (or the members are not "
+                    + "independent measurements, e.g. computed), and so do the fit's; S below 1 is not applied",
+                    chiSquare, degreesOfFreedom(), probabilityText(lowerChiSquareProbability().orElseThrow())));
         }
         if (deletion != null) {
             boolean consistent = deletion.probability() >= IMPROBABLE_PROBABILITY;
@@ -486,11 +535,23 @@ public final class SeriesFit {
     }
 
     /**
-     * Every asked member of every series, in series order then in the order asked: where a series
-     * has no level at an n (the fitted defect leaves no positive effective n) the prediction has no
-     * member and a note saying so, and the other series are still predicted; an n below a series'
-     * lowest measured member is predicted with a note that the defect expansion is extrapolated
-     * downwards there, where it usually fails.
+     * Every asked member of every series, in series order then in the order asked. A prediction is
+     * given only where the fitted series is physically ordered: from the asked n up through the
+     * series' fitted members (or from them up to it) every member's effective n {@code n - delta(n)}
+     * is positive, its energy lies below the limit (binding energy positive) and rises with n, and the
+     * asked member lies at or above 0, the ground level. Elsewhere the prediction has no member and a
+     * note naming the series, n and the reason, and the other series are still predicted.
+     *
+     * <p><b>Below the lowest measured member</b> the defect expansion is extrapolated downwards, where
+     * its truncation dominates: the terms left out grow as {@code (n - d0)^-2} per order. The
+     * prediction then carries, in quadrature with the fit's uncertainty ({@link
+     * Prediction#uncertaintyPerCm}), the size of the last fitted term at that n carried to energy,
+     * {@code u_trunc = |d_last / (n - d0)^(2k)| 2 R_M / (n - delta(n))^3} (common practice: the
+     * first omitted term taken as no larger than the last kept one). A series fitted with d0 alone
+     * gives no such estimate, and its members below the lowest measured one are withheld. Checked on
+     * Rb-87 nS1/2 and nD5/2 members n = 20-40 (the README's example): 5s, 6s, 4d5/2, 5d5/2 and 6d5/2
+     * then come out within their stated uncertainty of the known levels (from memory), and 4s, below
+     * the ground level, is withheld ({@code SeriesFitterTest}).
      *
      * @param n principal quantum numbers, each at least 1
      * @return the predictions
@@ -501,8 +562,10 @@ public final class SeriesFit {
         for (int s = 0; s < model.series.size(); s++) {
             RydbergSeries one = model.series.get(s);
             int lowest = Integer.MAX_VALUE;
+            int highest = Integer.MIN_VALUE;
             for (int i = 0; i < one.size(); i++) {
                 lowest = Math.min(lowest, one.n(i));
+                highest = Math.max(highest, one.n(i));
             }
             for (int k : n) {
                 if (k < 1) {
@@ -512,16 +575,80 @@ public final class SeriesFit {
                 try {
                     member = predict(s, k);
                 } catch (IllegalArgumentException e) {
-                    out.add(new Prediction(s, k, Optional.empty(), Optional.of(e.getMessage() + "; not predicted")));
+                    out.add(withheld(s, k, e.getMessage() + "; not predicted"));
                     continue;
                 }
-                Optional<String> note = k >= lowest ? Optional.empty() : Optional.of(String.format(Locale.ROOT,
+                String disorder = disorder(s, Math.min(k, lowest), Math.max(k, highest));
+                if (disorder != null) {
+                    out.add(withheld(s, k, String.format(Locale.ROOT, "series %s is not physically ordered from "
+                            + "n = %d to %d in the fit: %s; n = %d not predicted", one.name(), Math.min(k, lowest),
+                            Math.max(k, highest), disorder, k)));
+                    continue;
+                }
+                if (member.energyPerCm() < 0) {
+                    out.add(withheld(s, k, String.format(Locale.ROOT, "series %s at n = %d comes out below the "
+                            + "ground level (energies are above it): no such level; not predicted", one.name(), k)));
+                    continue;
+                }
+                if (k >= lowest) {
+                    out.add(new Prediction(s, k, Optional.of(member), 0, Optional.empty()));
+                    continue;
+                }
+                if (terms[s] < 2) {
+                    out.add(withheld(s, k, String.format(Locale.ROOT, "n = %d lies below the lowest member of %s "
+                            + "(n = %d) and the series was fitted with d0 alone: the truncation of the defect "
+                            + "expansion extrapolated downwards cannot be estimated; not predicted", k, one.name(),
+                            lowest)));
+                    continue;
+                }
+                double truncation = truncationPerCm(s, k, member.quantumDefect());
+                out.add(new Prediction(s, k, Optional.of(member), truncation, Optional.of(String.format(Locale.ROOT,
                         "n = %d lies below the lowest member of %s (n = %d): the defect expansion is extrapolated "
-                        + "downwards there, where it usually fails", k, one.name(), lowest));
-                out.add(new Prediction(s, k, Optional.of(member), note));
+                        + "downwards there; its uncertainty includes %.3g cm-1 for the truncation (the last "
+                        + "fitted term's size at n = %d)", k, one.name(), lowest, truncation, k))));
             }
         }
         return out;
+    }
+
+    private static Prediction withheld(int s, int n, String note) {
+        return new Prediction(s, n, Optional.empty(), 0, Optional.of(note));
+    }
+
+    /**
+     * @return why the fitted series is not physically ordered from n = from to n = to (a member with no
+     *         positive effective n, at or above the limit, or not above the one below it), or null
+     */
+    private String disorder(int s, int from, int to) {
+        double[] d = defects(s);
+        List<Double> c = Arrays.stream(d).boxed().toList();
+        double below = Double.NEGATIVE_INFINITY;
+        double limit = limitPerCm();
+        for (int m = from; m <= to; m++) {
+            double delta = AlkaliAtom.rydbergRitzDefect(c, m);
+            if (!(m - delta > 0)) {
+                return String.format(Locale.ROOT, "n = %d has no positive effective n (delta %.4g)", m, delta);
+            }
+            double e = limitPerCm() - model.rydberg / ((m - delta) * (m - delta));
+            if (!(e < limit)) {
+                return String.format(Locale.ROOT, "n = %d lies at or above the limit", m);
+            }
+            if (!(e > below)) {
+                return String.format(Locale.ROOT, "the energy does not rise from n = %d to %d (delta %.4g at n = %d)",
+                        m - 1, m, delta, m);
+            }
+            below = e;
+        }
+        return null;
+    }
+
+    /** @return the last fitted defect term's size at n carried to energy, cm^-1 (see {@link #predictions}) */
+    private double truncationPerCm(int s, int n, double delta) {
+        double[] d = defects(s);
+        double x = 1 / ((n - d[0]) * (n - d[0]));
+        double term = d[d.length - 1] * Math.pow(x, d.length - 1);
+        double nu = n - delta;
+        return Math.abs(term) * 2 * model.rydberg / (nu * nu * nu);
     }
 
     /**

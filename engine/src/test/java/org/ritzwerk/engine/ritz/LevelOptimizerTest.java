@@ -154,12 +154,16 @@ class LevelOptimizerTest {
             ratio.add(levels.differenceSigma(u, l) / Math.hypot(fit.uncertaintyPerCm(u), fit.uncertaintyPerCm(l)));
         }
         assertTrue(ratio.stream().anyMatch(x -> Math.abs(x - 1) > 0.05), "correlations matter for some line");
-        // a reference that is not the lowest level leaves levels below 0: no level list from that
+        // a reference that is not the lowest level leaves levels below 0: refused unless allowed, and then
+        // no level list from that
         MeasuredLines.Builder above = MeasuredLines.builder(label(3), 0);
         for (int k = 0; k < PAIRS.length; k++) {
             above.add(label(PAIRS[k][0]), label(PAIRS[k][1]), TRUE[PAIRS[k][0]] - TRUE[PAIRS[k][1]], SIGMA[k]);
         }
-        LevelOptimum shifted = LevelOptimizer.defaults().optimize(above.build());
+        RitzException refused = assertThrows(RitzException.class,
+                () -> LevelOptimizer.defaults().optimize(above.build()));
+        assertTrue(refused.getMessage().startsWith("level 'L0' came out at -22000.250000"), refused.getMessage());
+        LevelOptimum shifted = LevelOptimizer.defaults().withLevelsBelowZero(true).optimize(above.build());
         RitzException below = assertThrows(RitzException.class, () -> shifted.levels(Species.parse("Fe I")));
         assertTrue(below.getMessage().contains("below the ground level"), below.getMessage());
     }
@@ -352,5 +356,87 @@ class LevelOptimizerTest {
         RitzException same = assertThrows(RitzException.class,
                 () -> MeasuredLines.builder("g", 0).add("a  b", "a b", 1, 1));
         assertEquals(RitzException.BAD_ASSIGNMENT, same.code());
+    }
+
+    @Test
+    void aLevelSetByOneReversedLineBelowTheGroundLevelIsRefused() {
+        // the reviewer's revonly.csv: 1s2p 1P1 reached only by a line entered with upper and lower swapped
+        // (wavenumbers invented, as in the README example); an energy above the ground level cannot be below 0
+        MeasuredLines reversed = MeasuredLines.builder("1s2s 1S0", 0)
+                .add("1s2s 1S0", "1s2p 1P1", 4857.4567, 0.0010, "revonly.csv:4")
+                .add("1s3p 1P1", "1s2s 1S0", 19931.9248, 0.0010, "revonly.csv:5").build();
+        RitzException e = assertThrows(RitzException.class, () -> LevelOptimizer.defaults().optimize(reversed));
+        assertEquals(RitzException.BAD_ASSIGNMENT, e.code());
+        assertTrue(e.getMessage().startsWith("level '1s2p 1P1' came out at -4857.456700")
+                && e.getMessage().contains("line 1 (revonly.csv:4: upper '1s2s 1S0', lower '1s2p 1P1'")
+                && !e.getMessage().contains("revonly.csv:5") && e.getMessage().contains("may be reversed"),
+                e.getMessage());
+        // the same line the right way round is fitted (a level at 0 or above)
+        MeasuredLines right = MeasuredLines.builder("1s2s 1S0", 0).add("1s2p 1P1", "1s2s 1S0", 4857.4567, 0.0010)
+                .add("1s3p 1P1", "1s2s 1S0", 19931.9248, 0.0010).build();
+        assertEquals(4857.4567, LevelOptimizer.defaults().optimize(right).energyPerCm(1), 1e-9);
+        // a ground level that is not the reference may come out a little below 0 within its uncertainty
+        // (invented values: ground 0, excited reference at 100 cm-1, line 99.9995 +- 0.001: ground at +0.0005)
+        MeasuredLines ground = MeasuredLines.builder("X", 100).add("X", "G", 100.0015, 0.0010).build();
+        assertEquals(-0.0015, LevelOptimizer.defaults().optimize(ground).energyPerCm(1), 1e-9);
+    }
+
+    @Test
+    void uncertaintiesDoublePrecisionCannotCarryAreRefusedNamingTheLine() {
+        // the reviewer's extreme.json: u = 1e-300 (weight overflows) and 1e300; before, "came out at NaN cm-1"
+        MeasuredLines extreme = MeasuredLines.builder("A", 0).add("B", "A", 100, 1e-300, "extreme.json:1")
+                .add("C", "A", 200, 1e300, "extreme.json:2").add("C", "B", 100, 1e-300, "extreme.json:3").build();
+        RitzException e = assertThrows(RitzException.class, () -> LevelOptimizer.defaults().optimize(extreme));
+        assertEquals(RitzException.BAD_VALUE, e.code());
+        assertTrue(e.getMessage().startsWith("line 1 (extreme.json:1): its uncertainty 1.00e-300 cm-1 is below 1e-12"),
+                e.getMessage());
+        // u = 1e-12 on 100 cm-1 (the reviewer's ext case): chi2 came out 4.3e-4 where 2.5e-5 is exact; refused
+        MeasuredLines fine = MeasuredLines.builder("A", 0).add("B", "A", 100, 1e-12, "ext.json:1")
+                .add("C", "A", 200.005, 1, "ext.json:2").add("C", "B", 100, 1e-12, "ext.json:3").build();
+        assertEquals(RitzException.BAD_VALUE,
+                assertThrows(RitzException.class, () -> LevelOptimizer.defaults().optimize(fine)).code());
+        // a spread alone: u = 1e-6 beside u = 1e5 (1e11 apart) refused naming both lines
+        MeasuredLines spread = MeasuredLines.builder("A", 0).add("B", "A", 100, 1e-6, "s.csv:4")
+                .add("C", "A", 200, 1e5, "s.csv:5").add("C", "B", 100, 1e-6, "s.csv:6").build();
+        RitzException s = assertThrows(RitzException.class, () -> LevelOptimizer.defaults().optimize(spread));
+        assertTrue(s.getMessage().startsWith("line 1 (s.csv:4)") && s.getMessage().contains("line 2 (s.csv:5)"),
+                s.getMessage());
+        // within the limits the chi2 is right: u = 1e-9 on 100 cm-1 beside u = 1 (exact chi2 = 0.005^2 / (1 + 2e-18),
+        // the loose line's residual over its uncertainty, common practice)
+        MeasuredLines ok = MeasuredLines.builder("A", 0).add("B", "A", 100, 1e-9).add("C", "A", 200.005, 1)
+                .add("C", "B", 100, 1e-9).build();
+        assertEquals(2.5e-5, LevelOptimizer.defaults().optimize(ok).chiSquare(), 2.5e-5 * 1e-3);
+    }
+
+    /**
+     * Leaving lines out by downdating the fit gives what refitting from scratch after each line gives: the same
+     * lines left out in the same order and the same levels (a seeded network of invented levels: 60 levels,
+     * 400 lines, 12 of them moved by 20 to 200 of their uncertainties).
+     */
+    @Test
+    void downdatingLeavesOutTheSameLinesAsRefittingFromScratch() {
+        Random r = new Random(5);
+        int levels = 60;
+        double[] truth = new double[levels];
+        for (int i = 1; i < levels; i++) {
+            truth[i] = truth[i - 1] + 100 + 900 * r.nextDouble();
+        }
+        MeasuredLines.Builder b = MeasuredLines.builder(label(0), 0);
+        for (int k = 0; k < 400; k++) {
+            int u = k < levels - 1 ? k + 1 : 1 + r.nextInt(levels - 1);
+            int l = k < levels - 1 ? k : r.nextInt(u);
+            double sigma = 0.001 * (1 + 9 * r.nextDouble());
+            double shift = k % 33 == 7 ? sigma * (20 + 180 * r.nextDouble()) : 0;
+            b.add(label(u), label(l), truth[u] - truth[l] + sigma * r.nextGaussian() + shift, sigma);
+        }
+        MeasuredLines problem = b.build();
+        LevelOptimum down = LevelOptimizer.defaults().optimize(problem);
+        LevelOptimum full = LevelOptimizer.defaults().withFullRefits().optimize(problem);
+        assertTrue(down.leftOut().size() >= 10, down.leftOut().toString());
+        assertEquals(full.leftOut(), down.leftOut());
+        for (int i = 0; i < levels; i++) {
+            assertEquals(full.energyPerCm(i), down.energyPerCm(i), 0);
+        }
+        assertEquals(full.chiSquare(), down.chiSquare(), 0);
     }
 }

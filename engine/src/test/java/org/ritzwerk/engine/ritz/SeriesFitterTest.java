@@ -398,4 +398,106 @@ class SeriesFitterTest {
         }
         return SeriesFitter.defaults().withTerms(3).withLimit(limit, 1e-3).fit(R, List.of(b.build()));
     }
+
+    /** Rb-87 R_M, cm^-1 (the README's example: AME2020 mass with CODATA 2018 R_inf, as the example file uses). */
+    private static final double R_RB87 = 109736.623008;
+    /** Rb-87 limit the example members were computed from, cm^-1 (M. Mack et al., Phys. Rev. A 83, 052515 (2011)). */
+    private static final double LIMIT_RB87 = 33690.80395355937;
+
+    /** The README's Rb-87 example: nS1/2 and nD5/2, n = 20-40 step 2, u = 1e-4 cm^-1, no noise. */
+    private static SeriesFit rubidium() {
+        RydbergSeries.Builder s = RydbergSeries.builder("nS1/2");
+        RydbergSeries.Builder d = RydbergSeries.builder("nD5/2");
+        for (int n = 20; n <= 40; n += 2) {
+            // quantum defects of M. Mack et al., Phys. Rev. A 83, 052515 (2011)
+            s.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT_RB87, R_RB87, List.of(3.1311807, 0.1787), n), 1e-4);
+            d.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT_RB87, R_RB87, List.of(1.3464622, -0.594), n), 1e-4);
+        }
+        return SeriesFitter.defaults().withTerms(2, 2).fit(R_RB87, List.of(s.build(), d.build()));
+    }
+
+    /**
+     * Below the fitted members the stated uncertainty includes the expansion's truncation and covers the
+     * known low levels of Rb, or the prediction is withheld (the reviewer's case: 5s at 476 +- 31.5 cm-1,
+     * 4d5/2 at 19051.6 +- 7.25, 4s at -240974.6 before).
+     */
+    @Test
+    void predictionsBelowTheMembersCoverTheKnownLevelsOrAreWithheld() {
+        SeriesFit fit = rubidium();
+        List<SeriesFit.Prediction> p = fit.predictions(4, 5, 6);
+        // Rb I levels, cm^-1 above 5s (from memory): 5s1/2 0, 6s1/2 20132.51, 4d5/2 19355.20, 5d5/2 25703.50,
+        // 6d5/2 28687.13; there is no 4s valence level (4s is in the core): the fit puts it below the ground level
+        assertTrue(p.get(0).member().isEmpty(), p.get(0).toString());
+        assertTrue(p.get(0).note().orElseThrow().contains("series nS1/2 at n = 4 comes out below the ground level"),
+                p.get(0).toString());
+        double[] known = {Double.NaN, 0, 20132.51, 19355.20, 25703.50, 28687.13};
+        for (int k = 1; k < 6; k++) {
+            SeriesFit.Prediction one = p.get(k);
+            double e = one.member().orElseThrow().energyPerCm();
+            double u = one.uncertaintyPerCm(1);
+            assertTrue(Math.abs(e - known[k]) <= u, one + ": " + e + " +- " + u + " vs " + known[k]);
+            assertTrue(one.truncationPerCm() > one.member().orElseThrow().uncertaintyPerCm(), one.toString());
+            assertTrue(one.note().orElseThrow().contains("for the truncation"), one.toString());
+        }
+        // the added uncertainty stays in proportion: 59 cm-1 at 6d5/2 by hand (|d2| / (6 - d0)^2 = 0.0274 times
+        // 2 R_M / n*^3 = 2140 cm-1, n* = 4.681), under 2 % of its binding energy
+        assertEquals(58.7, p.get(5).truncationPerCm(), 0.5);
+        assertTrue(p.get(5).uncertaintyPerCm(1) < 0.02 * (LIMIT_RB87 - 28687.13), p.get(5).toString());
+        // at and above the lowest member nothing is added
+        assertEquals(0, fit.predictions(20, 60).get(1).truncationPerCm());
+        assertEquals(fit.predict(0, 60).uncertaintyPerCm(), fit.predictions(60).get(0).uncertaintyPerCm(1), 0);
+        // with d0 alone the truncation cannot be estimated: withheld below the members, predicted above
+        RydbergSeries.Builder b = RydbergSeries.builder("nS1/2");
+        for (int n = 20; n <= 40; n += 2) {
+            b.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT_RB87, R_RB87, List.of(3.1311807), n), 1e-4);
+        }
+        SeriesFit one = SeriesFitter.defaults().withTerms(1).fit(R_RB87, List.of(b.build()));
+        assertTrue(one.predictions(10).get(0).member().isEmpty()
+                && one.predictions(10).get(0).note().orElseThrow().contains("fitted with d0 alone"));
+        assertTrue(one.predictions(50).get(0).member().isPresent());
+    }
+
+    /**
+     * A series whose fitted defect turns the energies over below its members gives no prediction there (the
+     * reviewer's ser-ok.csv: nD n = 3 at 45923.14 +- 0.077 cm-1, defect -107, above the n = 20 member).
+     */
+    @Test
+    void aPredictionWhereTheFittedSeriesIsNotOrderedIsWithheld() {
+        RydbergSeries.Builder b = RydbergSeries.builder("nD");
+        for (int n = 20; n <= 60; n += 2) {
+            // invented defects like the reviewer's fit of its Sr-88 file (d0 2.63, d2 -15.0); limit LIMIT
+            b.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT, R, List.of(2.63, -15.0), n), 0.002);
+        }
+        SeriesFit fit = SeriesFitter.defaults().withTerms(2).fit(R, List.of(b.build()));
+        SeriesFit.Prediction three = fit.predictions(3).get(0);
+        assertTrue(three.member().isEmpty(), three.toString());
+        assertTrue(three.note().orElseThrow().startsWith("series nD is not physically ordered from n = 3 to 60")
+                && three.note().get().contains("does not rise") && three.note().get().endsWith("n = 3 not predicted"),
+                three.toString());
+        // the old answer is still what predict gives: above the n = 20 member (so the check is needed)
+        assertTrue(fit.predict(0, 3).energyPerCm() > fit.predict(0, 20).energyPerCm());
+        assertTrue(fit.predictions(21).get(0).member().isPresent() && fit.predictions(80).get(0).member().isPresent());
+    }
+
+    /**
+     * A chi2 improbably small is said (the reviewer's case: chi2 1.19 for 191 dof called consistent); the scale
+     * factor is not applied below 1 (common practice).
+     */
+    @Test
+    void aFitTooGoodForItsUncertaintiesIsSaid() {
+        SeriesFit exact = rubidium();     // members computed, no noise: chi2 near 0 for 18 dof
+        assertTrue(exact.isTooGood() && !exact.isImprobable());
+        assertTrue(exact.lowerChiSquareProbability().orElseThrow() < SeriesFit.TOO_GOOD_PROBABILITY);
+        assertTrue(exact.notes().stream().anyMatch(n -> n.startsWith("the fit is too good")
+                && n.contains("the uncertainties look overstated")), exact.notes().toString());
+        assertEquals(1, exact.uncertaintyScale());
+        // seeded noise at the stated uncertainty: neither too good nor improbable, no note
+        RydbergSeries s = synthetic("nS", new Random(7), List.of(3.1311807, 0.1787), 20, 40, 1e-3);
+        SeriesFit noisy = SeriesFitter.defaults().withTerms(2).fit(R, List.of(s));
+        assertFalse(noisy.isTooGood(), noisy.toString());
+        assertTrue(noisy.notes().stream().noneMatch(n -> n.contains("too good")), noisy.notes().toString());
+        // P + Q = 1 (the two tails of one distribution, common practice)
+        assertEquals(1, noisy.lowerChiSquareProbability().orElseThrow() + noisy.chiSquareProbability().orElseThrow(),
+                1e-12);
+    }
 }
