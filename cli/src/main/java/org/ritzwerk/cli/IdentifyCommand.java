@@ -78,8 +78,8 @@ final class IdentifyCommand implements Callable<Integer> {
 
     @Option(names = "--intercombination",
             description = "Level lists (He I, Sr I): also the lines between terms of different spin (intercombination"
-                    + " lines between singlets and triplets, such as Sr I 689.26 nm), the other LS rules still applying;"
-                    + " by default only the E1 and LS rules' lines.")
+                    + " lines between singlets and triplets, such as Sr I 689.26 nm), the other LS rules still"
+                    + " applying; by default only the E1 and LS rules' lines.")
     boolean intercombination;
 
     @Option(names = "--components",
@@ -294,7 +294,8 @@ final class IdentifyCommand implements Callable<Integer> {
         String shown = String.join(", ", without.subList(0, Math.min(10, without.size())))
                 + (without.size() > 10 ? " and " + (without.size() - 10) + " more" : "");
         return java.util.Optional.of("note: the intensities are not used (the match ignores them): "
-                + without.size() + " of " + intensities.length + " peaks have none (" + file + (without.size() == 1 ? " line " : " lines ") + shown
+                + without.size() + " of " + intensities.length + " peaks have none (" + file
+                + (without.size() == 1 ? " line " : " lines ") + shown
                 + "); give every peak an intensity, or none");
     }
 
@@ -391,8 +392,8 @@ final class IdentifyCommand implements Callable<Integer> {
                     row.lines(), row.note());
         }
         if (rows.isEmpty()) {
-            spec.commandLine().getErr().println("identify: no matched line with a known upper level, weight and A (a --species line, or a"
-                    + " level-list line with A); nothing to diagnose");
+            spec.commandLine().getErr().println("identify: no matched line with a known upper level, weight and A"
+                    + " (a --species line, or a level-list line with A); nothing to diagnose");
             spec.commandLine().getErr().flush();
         }
         table.finish();

@@ -32,8 +32,9 @@ import org.ritzwerk.quantity.Unit;
  * required, {@code title}, {@code source} and {@code note} optional. Every column is required:
  * {@code series} (a name; rows of one name form one series, in the order the names first appear),
  * {@code n} (an integer 1 to 10000, once per series), {@code energy} above the ground level and its
- * standard {@code uncertainty} (positive); an empty or blank field in any of them is an error. In JSON the key is {@code energyUnit} and the rows are
- * under {@code members}. Every problem is reported with file, line and column, all at once.
+ * standard {@code uncertainty} (positive); an empty or blank field in any of them is an error. In
+ * JSON the key is {@code energyUnit} and the rows are under {@code members}. Every problem is
+ * reported with file, line and column, all at once.
  * Stateless and thread-safe.
  */
 public final class SeriesFiles {

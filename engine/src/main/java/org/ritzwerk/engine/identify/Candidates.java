@@ -306,7 +306,8 @@ public final class Candidates {
                     b.add(lines.species(i), vacuum, sigma, strength, label);
                     if (lines.upperEnergyJoules(i).isPresent() && lines.upperWeight(i).isPresent()
                             && lines.einsteinA(i).isPresent()) {
-                        emissions.put(key(lines.species(i), label), new Emission(lines.upperEnergyJoules(i).getAsDouble(),
+                        emissions.put(key(lines.species(i), label), new Emission(
+                                lines.upperEnergyJoules(i).getAsDouble(),
                                 lines.upperWeight(i).getAsInt() * lines.einsteinA(i).getAsDouble()));
                     }
                 }

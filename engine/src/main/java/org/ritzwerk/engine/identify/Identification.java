@@ -464,8 +464,12 @@ public final class Identification {
         int[] strongMatched = new int[count];
         double[] strongByChance = new double[count];
         double[] strongVariance = new double[count];
-        // Each species' strong-line rates in catalogue order (unboxed; lengths in strong[]).
+        // Each species' strong-line rates in catalogue order (unboxed; lengths in strong[]), and
+        // the rates of all its lines counted (lengths in counted[]).
         double[][] strongRates = new double[count][];
+        double[][] allRates = new double[count][];
+        int[] counted = new int[count];
+        double[] allVariance = new double[count];
         double[] sorted = ascending(peaks.wavelengths());
         double[] sigmas = ascending(peaks.sigmas());
         double typicalSigma = sigmas[sigmas.length / 2];
@@ -482,17 +486,16 @@ public final class Identification {
             }
             double p = chanceRate(sorted, w, h, lines.windowLength(j, h));
             matchedByChance[s] += p;
+            allVariance[s] += p * (1 - p);
+            allRates[s] = grown(allRates[s], counted[s]);
+            allRates[s][counted[s]++] = p;
             // a matched line counts even where it lies just beyond the outermost peak
             if ((w >= lo && w <= hi || used[j]) && lines.strength(j) >= strongLine) {
                 strong[s]++;
                 strongMatched[s] += used[j] ? 1 : 0;
                 strongByChance[s] += p;
                 strongVariance[s] += p * (1 - p);
-                if (strongRates[s] == null) {
-                    strongRates[s] = new double[16];
-                } else if (strong[s] > strongRates[s].length) {
-                    strongRates[s] = java.util.Arrays.copyOf(strongRates[s], 2 * strongRates[s].length);
-                }
+                strongRates[s] = grown(strongRates[s], strong[s] - 1);
                 strongRates[s][strong[s] - 1] = p;
             }
         }
@@ -508,8 +511,8 @@ public final class Identification {
                 // probability (Bonferroni); the second is worked out only where it can matter.
                 chance = Math.min(1, 2 * chance);
                 if (chance > 0.01 && matched[s] > 0) {
-                    chance = Math.min(chance, 2 * lookElsewhere(allLinesChance(s, sorted, typicalSigma, lo, hi,
-                            matched[s]), trials));
+                    chance = Math.min(chance, 2 * lookElsewhere(chanceProbability(allRates[s], counted[s],
+                            matched[s], matchedByChance[s], allVariance[s]), trials));
                 }
             }
             double share = Double.NaN;
@@ -531,33 +534,12 @@ public final class Identification {
         return trials > 1 && !Double.isNaN(chance) ? -Math.expm1(trials * Math.log1p(-Math.min(chance, 1))) : chance;
     }
 
-    /**
-     * The probability that chance alone matches at least {@code matched} of species s's lines
-     * near the peaks' range (the lines {@link #speciesPresence} counts chance matches for).
-     */
-    private double allLinesChance(int s, double[] sorted, double typicalSigma, double lo, double hi, int matched) {
-        double[] rates = new double[16];
-        int n = 0;
-        double mu = 0;
-        double variance = 0;
-        for (int j = 0; j < lines.size(); j++) {
-            if (lines.speciesIndex(j) != s) {
-                continue;
-            }
-            double w = lines.wavelength(j);
-            double h = tolerance.halfWidth(w, typicalSigma, lines.sigma(j));
-            if (!used[j] && (w < lo - h || w > hi + h)) {
-                continue;
-            }
-            double p = chanceRate(sorted, w, h, lines.windowLength(j, h));
-            if (n == rates.length) {
-                rates = java.util.Arrays.copyOf(rates, 2 * n);
-            }
-            rates[n++] = p;
-            mu += p;
-            variance += p * (1 - p);
+    /** @return the array, or a new one, with room for index {@code at} */
+    private static double[] grown(double[] rates, int at) {
+        if (rates == null) {
+            return new double[16];
         }
-        return chanceProbability(rates, n, matched, mu, variance);
+        return at < rates.length ? rates : java.util.Arrays.copyOf(rates, 2 * rates.length);
     }
 
     /**

@@ -182,4 +182,35 @@ class ResolvedComponentsTest {
         ShiftSearch.Fit offset = ShiftSearch.offset(Identifier.of(Tolerance.kSigma(5)), resolved, catalog, 0.01e-9);
         assertEquals(0, offset.value(), 1e-18);
     }
+
+    @Test
+    void theWindowOfABlendIsTheUnionAroundItsPositions() {
+        // random invented blends: the window length equals the union of [x - h, x + h] over the
+        // positions a peak may see the blend at, computed here by sorting them
+        java.util.SplittableRandom random = new java.util.SplittableRandom(3);
+        for (int trial = 0; trial < 500; trial++) {
+            int n = 2 + random.nextInt(6);
+            double[] at = new double[n];
+            double[] weights = new double[n];
+            for (int k = 0; k < n; k++) {
+                at[k] = 500e-9 + random.nextDouble(0, 50e-12);
+                weights[k] = random.nextDouble(0.01, 1);
+            }
+            double centroid = 0;
+            double total = 0;
+            for (int k = 0; k < n; k++) {
+                centroid += weights[k] * at[k];
+                total += weights[k];
+            }
+            LineCatalog catalog = LineCatalog.builder().addBlend(HE, centroid / total, 0, 1, "b", at, weights).build();
+            double h = random.nextDouble(0.5e-12, 10e-12);
+            double[] positions = catalog.positions(0, h);
+            Arrays.sort(positions);
+            double union = 2 * h;
+            for (int k = 1; k < positions.length; k++) {
+                union += Math.min(2 * h, positions[k] - positions[k - 1]);
+            }
+            assertEquals(union, catalog.windowLength(0, h), 1e-9 * union, "trial " + trial);
+        }
+    }
 }
