@@ -74,9 +74,9 @@ public final class Identification {
         int count = lines.speciesList().size();
         int[] strong = new int[count];
         int[] found = new int[count];
-        for (int j = 0; j < lines.size(); j++) {
+        for (int j : lines.linesAtLeast(strongLine)) {
             double w = lines.wavelength(j);
-            if (lines.strength(j) >= strongLine && (w >= lo && w <= hi || used[j])) {
+            if (w >= lo && w <= hi || used[j]) {
                 strong[lines.speciesIndex(j)]++;
                 found[lines.speciesIndex(j)] += used[j] ? 1 : 0;
             }

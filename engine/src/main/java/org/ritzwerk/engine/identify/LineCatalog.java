@@ -35,6 +35,13 @@ public final class LineCatalog {
     /** The largest distance of a component below its line's wavelength, and above it (metres). */
     private final double partsBelow;
     private final double partsAbove;
+    /** Per line, the widest gap between neighbouring components (0 without components). */
+    private final double[] widestGap;
+    /** The lines at least as strong as a threshold, ascending; found on first use (one object, so threads agree). */
+    private volatile StrongLines strongLines;
+
+    private record StrongLines(double threshold, int[] lines) {
+    }
     private final List<Species> speciesList;
     private final double maxSigma;
 
@@ -56,6 +63,12 @@ public final class LineCatalog {
         }
         this.partsBelow = below;
         this.partsAbove = above;
+        this.widestGap = new double[wavelength.length];
+        for (int j = 0; parts != null && j < parts.length; j++) {
+            for (int k = 1; parts[j] != null && k < parts[j].length; k++) {
+                widestGap[j] = Math.max(widestGap[j], parts[j][k] - parts[j][k - 1]);
+            }
+        }
         this.wavelength = wavelength;
         this.sigma = sigma;
         this.strength = strength;
@@ -170,8 +183,8 @@ public final class LineCatalog {
     public double nearestPosition(int j, double x, double reach) {
         double best = wavelength[j];
         double[] offsets = parts == null ? null : parts[j];
-        if (offsets == null || offsets.length < 2) {
-            return best;
+        if (offsets == null || offsets.length < 2 || widestGap[j] <= 2 * reach) {
+            return best; // one group
         }
         double[] weights = partWeights[j];
         double sum = 0;
@@ -269,8 +282,8 @@ public final class LineCatalog {
      */
     double windowLength(int j, double h) {
         double[] offsets = parts == null ? null : parts[j];
-        if (offsets == null || offsets.length < 2) {
-            return 2 * h;
+        if (offsets == null || offsets.length < 2 || widestGap[j] <= 2 * h) {
+            return 2 * h; // one group: seen at the centroid only
         }
         // the groups' centres come in ascending order; the centroid (offset 0) is merged in
         double[] weights = partWeights[j];
@@ -301,6 +314,20 @@ public final class LineCatalog {
             return 2 * h; // one group: seen at the centroid only
         }
         return centroid ? length : length + Math.min(2 * h, -previous);
+    }
+
+    /**
+     * @param threshold a relative strength
+     * @return the lines at least that strong, ascending (the last threshold's list is kept)
+     */
+    int[] linesAtLeast(double threshold) {
+        StrongLines found = strongLines;
+        if (found == null || found.threshold() != threshold) {
+            found = new StrongLines(threshold, java.util.stream.IntStream.range(0, strength.length)
+                    .filter(j -> strength[j] >= threshold).toArray());
+            strongLines = found;
+        }
+        return found.lines();
     }
 
     /** @return the blend flags, or null when no line is a blend */
