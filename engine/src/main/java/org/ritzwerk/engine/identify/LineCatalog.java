@@ -285,35 +285,13 @@ public final class LineCatalog {
         if (offsets == null || offsets.length < 2 || widestGap[j] <= 2 * h) {
             return 2 * h; // one group: seen at the centroid only
         }
-        // the groups' centres come in ascending order; the centroid (offset 0) is merged in
-        double[] weights = partWeights[j];
-        double length = 0;
-        double previous = Double.NaN;
-        boolean centroid = false;
-        int groups = 0;
-        double sum = 0;
-        double weighted = 0;
-        for (int k = 0; k < offsets.length; k++) {
-            sum += weights[k];
-            weighted += weights[k] * offsets[k];
-            if (k == offsets.length - 1 || offsets[k + 1] - offsets[k] > 2 * h) {
-                double centre = weighted / sum;
-                if (!centroid && centre >= 0) {
-                    length += Double.isNaN(previous) ? 2 * h : Math.min(2 * h, -previous);
-                    previous = 0;
-                    centroid = true;
-                }
-                length += Double.isNaN(previous) ? 2 * h : Math.min(2 * h, centre - previous);
-                previous = centre;
-                groups++;
-                sum = 0;
-                weighted = 0;
-            }
+        double[] at = positions(j, h);
+        Arrays.sort(at);
+        double length = 2 * h;
+        for (int k = 1; k < at.length; k++) {
+            length += Math.min(2 * h, at[k] - at[k - 1]);
         }
-        if (groups == 1) {
-            return 2 * h; // one group: seen at the centroid only
-        }
-        return centroid ? length : length + Math.min(2 * h, -previous);
+        return length;
     }
 
     /**

@@ -186,7 +186,7 @@ class ResolvedComponentsTest {
     @Test
     void theWindowOfABlendIsTheUnionAroundItsPositions() {
         // random invented blends: the window length equals the union of [x - h, x + h] over the
-        // positions a peak may see the blend at, computed here by sorting them
+        // positions a peak may see the blend at, computed here by merging the intervals
         java.util.SplittableRandom random = new java.util.SplittableRandom(3);
         for (int trial = 0; trial < 500; trial++) {
             int n = 2 + random.nextInt(6);
@@ -206,10 +206,18 @@ class ResolvedComponentsTest {
             double h = random.nextDouble(0.5e-12, 10e-12);
             double[] positions = catalog.positions(0, h);
             Arrays.sort(positions);
-            double union = 2 * h;
+            // merge the intervals one by one
+            double union = 0;
+            double start = positions[0] - h;
+            double end = positions[0] + h;
             for (int k = 1; k < positions.length; k++) {
-                union += Math.min(2 * h, positions[k] - positions[k - 1]);
+                if (positions[k] - h > end) {
+                    union += end - start;
+                    start = positions[k] - h;
+                }
+                end = positions[k] + h;
             }
+            union += end - start;
             assertEquals(union, catalog.windowLength(0, h), 1e-9 * union, "trial " + trial);
         }
     }
