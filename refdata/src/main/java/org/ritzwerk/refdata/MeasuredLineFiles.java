@@ -84,7 +84,14 @@ public final class MeasuredLineFiles {
      */
     public record Contents(List<Line> lines, Unit unit, Medium medium, String source) {
 
-        /** @param lines its lines, copied */
+        /**
+         * Copies the lines.
+         *
+         * @param lines  its lines, copied
+         * @param unit   the position unit of the file
+         * @param medium the medium of wavelength positions, else null
+         * @param source the header's source, or empty
+         */
         public Contents {
             lines = List.copyOf(lines);
         }

@@ -20,7 +20,7 @@ import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
  * double, int, double)}: a synthetic scene with He I levels passes the Boltzmann sum over the same
  * levels it populates, so that the Saha and Boltzmann steps agree), or 1, the 1s^2 ground state
  * alone ({@link #helium(HydrogenLikeModel, double, double, int)}). The built-in He I level list
- * (n <= 10) sums to 1.0004 at 20 000 K, 1.005 at 25 000 K, 1.032 at 30 000 K, 1.31 at 40 000 K
+ * (n &lt;= 10) sums to 1.0004 at 20 000 K, 1.005 at 25 000 K, 1.032 at 30 000 K, 1.31 at 40 000 K
  * and 2.22 at 50 000 K, so U_I = 1 is good to 0.5 % up to 25 000 K only; above that the sum
  * itself depends on where the levels are cut off (each n adds about 4 n^2 states just below the
  * limit), which stands in for the lowering of the ionisation potential that is not applied.

@@ -52,7 +52,13 @@ public final class RitzLines {
      * @param reason why, in words: {@code "no parity"}, {@code "no J"} or {@code "no parity and no J"}
      */
     public record LevelWithoutLines(int index, String label, String reason) {
-        /** Checks the fields. */
+        /**
+         * Checks the fields.
+         *
+         * @param index  the level's index in its {@link RitzLevels}
+         * @param label  its label
+         * @param reason why it gives no line
+         */
         public LevelWithoutLines {
             Objects.requireNonNull(label, "label");
             Objects.requireNonNull(reason, "reason");

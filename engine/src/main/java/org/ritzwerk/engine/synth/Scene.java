@@ -487,7 +487,7 @@ public final class Scene {
          * helium balance ({@link IonisationBalance#helium(HydrogenLikeModel, double, double, int, double)},
          * the He II ion made from this nucleus, or the scene's He II model of the same nucleus), as
          * He II's is, with U as He I's partition function there too (the Saha and Boltzmann steps
-         * agree; U is cut off at the list's levels, n <= 10 for the built-in He I, which
+         * agree; U is cut off at the list's levels, n &lt;= 10 for the built-in He I, which
          * underestimates it at the highest temperatures); other species get no
          * ionisation balance (a note says so). Lines without A are left out. Labelled
          * {@code He I 1s3d 3D3 - 1s2p 3P2}.
