@@ -13,6 +13,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.Provenance;
+import org.ritzwerk.engine.ritz.LevelDesignation;
 import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
 import tools.jackson.databind.node.ObjectNode;
@@ -133,6 +134,13 @@ public final class LevelListFiles {
                 }
             }
             String note = p.text(row, "note");
+            if (label != null && twoJ >= 0) {
+                try {
+                    LevelDesignation.parse(label, twoJ); // a J in the label must agree with the j column
+                } catch (IllegalArgumentException e) {
+                    p.rowProblem(row, "j", "data.bad-j", e.getMessage());
+                }
+            }
             if (p.problems.size() != rowBefore) {
                 continue;
             }

@@ -35,6 +35,19 @@ class LevelListFilesTest {
     }
 
     @Test
+    void aJColumnThatDisagreesWithTheLabelIsReportedWhereItStands() {
+        // 4s4p 3P1 has J = 1 in its label (term notation, common practice) but 2 beside it
+        String text = "# ritzwerk-levels 1\n# id: x\n# title: t\n# source: s\n# provenance: measured\n# version: 1\n"
+                + "# energy-unit: cm-1\nspecies,label,energy,uncertainty,j\nCa I,4s2 1S0,0,0,0\n"
+                + "Ca I,4s4p 3P1,15210.063,0.001,2\n";
+        DataFileException e = assertThrows(DataFileException.class, () -> LevelListFiles.read(
+                new java.io.ByteArrayInputStream(text.getBytes(java.nio.charset.StandardCharsets.UTF_8)), "jm.csv"));
+        assertEquals(List.of("10:5 data.bad-j"), e.problems().stream().map(p -> p.line() + ":" + p.column() + " "
+                + p.code()).collect(Collectors.toList()));
+        assertEquals(true, e.getMessage().contains("has J = 1 in its label but J = 2 beside it"), e.getMessage());
+    }
+
+    @Test
     void refusesANonEnergyUnit() {
         String text = "# ritzwerk-levels 1\n# id: x\n# title: t\n# source: s\n# provenance: measured\n# version: 1\n"
                 + "# energy-unit: nm\nspecies,label,energy\nH I,1s,0\n";
