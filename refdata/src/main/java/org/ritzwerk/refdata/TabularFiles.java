@@ -103,8 +103,12 @@ final class TabularFiles {
         }
     }
 
-    /** One data row as read: its line, raw text, and the value of each column (String, Double or null). */
-    record Row(int line, String raw, Map<String, Object> values) {
+    /**
+     * One data row as read: its line, raw text, the value of each column (String, Double or null),
+     * and for a JSON file its place in the rows' array (1 for the first; 0 in CSV), which names it
+     * where several share a line.
+     */
+    record Row(int line, String raw, Map<String, Object> values, int entry) {
     }
 
     /**
@@ -137,6 +141,8 @@ final class TabularFiles {
         Map<String, Integer> columnIndex = Map.of();
         private final RowSink sink;
         private int rowCount;
+        /** The JSON rows' entries read so far. */
+        private int jsonEntries;
         /** The most rows read. */
         int maxRows = MAX_ROWS;
 
@@ -195,7 +201,8 @@ final class TabularFiles {
         }
 
         void rowProblem(Row row, String column, String code, String reason) {
-            problem(row.line(), columnIndex.getOrDefault(column, 0), code, "column " + column + ": " + reason, row.raw());
+            problem(row.line(), columnIndex.getOrDefault(column, 0), code, (row.entry() > 0 ? "entry " + row.entry()
+                    + " of '" + spec.arrayKey() + "', " : "") + "column " + column + ": " + reason, row.raw());
         }
 
         /** Throws every problem, in file order (line, then column), if there is any. */
@@ -781,7 +788,7 @@ final class TabularFiles {
             for (int c = 0; c < columns.length; c++) {
                 values.put(columns[c], fields[c].isEmpty() ? null : fields[c]);
             }
-            if (!addRow(p, new Row(line, p.raw(line), values))) {
+            if (!addRow(p, new Row(line, p.raw(line), values, 0))) {
                 break;
             }
         }
@@ -927,6 +934,7 @@ final class TabularFiles {
     /** @return false when reading should stop */
     private static boolean jsonRow(Parsed p, JsonNode node, int line, int column) {
         String raw = p.raw(line);
+        int entry = ++p.jsonEntries;
         if (!node.isObject()) {
             p.problem(line, column, "data.json-shape", "each entry of '" + p.spec.arrayKey() + "' must be a JSON object",
                     raw);
@@ -959,7 +967,7 @@ final class TabularFiles {
                 ok = false;
             }
         }
-        return !ok || addRow(p, new Row(line, raw, values));
+        return !ok || addRow(p, new Row(line, raw, values, entry));
     }
 
     // ------------------------------------------------------------------ writing

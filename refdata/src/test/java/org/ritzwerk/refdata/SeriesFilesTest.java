@@ -38,7 +38,9 @@ class SeriesFilesTest {
         DataFileException e = assertThrows(DataFileException.class, () -> SeriesFiles.read(json, "blank.json"));
         assertEquals(List.of("3 data.missing-value", "4 data.missing-value"),
                 e.problems().stream().map(p -> p.line() + " " + p.code()).collect(Collectors.toList()));
-        assertTrue(e.getMessage().contains("blank.json:4: column series: series needs a name"), e.getMessage());
+        // the entry in the array names the row where several share a line
+        assertTrue(e.getMessage().contains("blank.json:4: entry 3 of 'members', column series: series needs a name"),
+                e.getMessage());
     }
 
     /** A good file reads every row into its series, in the order the names first appear. */
