@@ -13,7 +13,9 @@ import org.ritzwerk.engine.ritz.RitzException;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
 import org.ritzwerk.quantity.SpectralQuantity;
+import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.quantity.Wavelength;
+import org.ritzwerk.quantity.Wavenumber;
 import org.ritzwerk.refdata.MeasuredLineFiles;
 import org.ritzwerk.refdata.OutputFiles;
 import picocli.CommandLine.Command;
@@ -172,18 +174,14 @@ final class FitLevelsCommand implements Callable<Integer> {
         for (int k = 0; k < lines; k++) {
             double ritz = fit.ritzPerCm(k);
             double u = fit.ritzUncertaintyPerCm(k);
-            // vacuum: lambda = 1e7 / sigma nm, u_lambda = lambda u / sigma; air: times d lambda_air / d lambda_vac
-            double vacuumNm = 1e7 / ritz;
-            Double wavelength = vacuumNm;
-            Double wavelengthU = vacuumNm * u / ritz;
-            if (!shown.equals(Medium.vacuum())) {
-                try {
-                    wavelength = shown.fromVacuum(vacuumNm * 1e-9) * 1e9;
-                    wavelengthU = wavelengthU * shown.slopeFromVacuum(vacuumNm * 1e-9);
-                } catch (MediumException e) {
-                    wavelength = null;          // outside the air model's range: no air wavelength
-                    wavelengthU = null;
-                }
+            Double wavelength = null;           // none outside the air model's range
+            Double wavelengthU = null;
+            try {
+                Wavelength w = Wavenumber.of(ritz, u, Unit.PER_CENTIMETRE).toWavelength(shown);
+                wavelength = w.valueIn(Unit.NANOMETRE);
+                wavelengthU = w.uncertaintyIn(Unit.NANOMETRE).orElse(Double.NaN);
+            } catch (MediumException e) {
+                // left empty
             }
             int order = fit.leftOut().indexOf(k);
             table.add("line", problem.name(k), problem.levels().get(problem.upper(k)),
