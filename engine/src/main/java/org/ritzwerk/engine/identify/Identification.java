@@ -65,12 +65,8 @@ public final class Identification {
      */
     private static boolean[] doubtSpeciesWithoutStrongLines(PeakList peaks, LineCatalog lines, int[] linePlusOne,
             boolean[] used, double strongLine) {
-        double lo = Double.POSITIVE_INFINITY;
-        double hi = Double.NEGATIVE_INFINITY;
-        for (int i = 0; i < peaks.size(); i++) {
-            lo = Math.min(lo, peaks.wavelength(i));
-            hi = Math.max(hi, peaks.wavelength(i));
-        }
+        double lo = peaks.shortestWavelength();
+        double hi = peaks.longestWavelength();
         int count = lines.speciesList().size();
         int[] strong = new int[count];
         int[] found = new int[count];
@@ -354,12 +350,8 @@ public final class Identification {
      *         have been seen
      */
     public int[] missingStrongLines() {
-        double lo = Double.POSITIVE_INFINITY;
-        double hi = Double.NEGATIVE_INFINITY;
-        for (int i = 0; i < peaks.size(); i++) {
-            lo = Math.min(lo, peaks.wavelength(i));
-            hi = Math.max(hi, peaks.wavelength(i));
-        }
+        double lo = peaks.shortestWavelength();
+        double hi = peaks.longestWavelength();
         List<Integer> missing = new ArrayList<>();
         for (int j = 0; j < lines.size(); j++) {
             double w = lines.wavelength(j);

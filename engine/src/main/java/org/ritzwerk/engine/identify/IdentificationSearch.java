@@ -76,13 +76,7 @@ public final class IdentificationSearch {
         }
         double reach = 1 + (Double.isNaN(maxSpeed) ? 0 : maxSpeed / PhysicalConstants.C) + 1e-3
                 + (Double.isNaN(maxOffset) ? 0 : maxOffset / 100e-9);
-        double lo = Double.POSITIVE_INFINITY;
-        double hi = 0;
-        for (int i = 0; i < peaks.size(); i++) {
-            lo = Math.min(lo, peaks.wavelength(i));
-            hi = Math.max(hi, peaks.wavelength(i));
-        }
-        return new double[] {lo / reach, hi * reach};
+        return new double[] {peaks.shortestWavelength() / reach, peaks.longestWavelength() * reach};
     }
 
     /**

@@ -15,11 +15,32 @@ public final class PeakList {
     private final double[] wavelength;
     private final double[] sigma;
     private final double[] intensity;
+    /** The shortest and the longest vacuum wavelength, metres. */
+    private final double shortest;
+    private final double longest;
 
     private PeakList(double[] wavelength, double[] sigma, double[] intensity) {
         this.wavelength = wavelength;
         this.sigma = sigma;
         this.intensity = intensity;
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (double w : wavelength) {
+            lo = Math.min(lo, w);
+            hi = Math.max(hi, w);
+        }
+        this.shortest = lo;
+        this.longest = hi;
+    }
+
+    /** @return the shortest vacuum wavelength among the peaks, metres */
+    public double shortestWavelength() {
+        return shortest;
+    }
+
+    /** @return the longest vacuum wavelength among the peaks, metres */
+    public double longestWavelength() {
+        return longest;
     }
 
     /**
