@@ -32,7 +32,8 @@ import picocli.CommandLine.Spec;
                 + "models tried; in csv the sections follow one another, each with its header row. The fit's "
                 + "chi-square probability is given; below 0.001 the fit is called improbable and a note says the "
                 + "stated uncertainties assume the model and the data right (column u x S scales them by "
-                + "S = sqrt(chi^2/dof)). Members with |residual/u| > 3 are flagged (column flag) and named in a note.",
+                + "S = max(1, sqrt(chi^2/dof))). Members with |residual/u| > 3 are flagged (column flag) and named "
+                + "in a note.",
         footer = {"", "Examples:",
             "  ritzwerk series members.csv",
             "  ritzwerk series members.csv --terms 2 --predict 40,60 --format json",
