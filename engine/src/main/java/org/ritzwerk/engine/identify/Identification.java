@@ -381,8 +381,7 @@ public final class Identification {
      * @return the shifts, at least 1
      */
     public double shiftsTried() {
-        double[] sigmas = ascending(peaks.sigmas());
-        return shiftsTried(ascending(peaks.wavelengths()), sigmas[sigmas.length / 2]);
+        return shiftsTried(ascending(peaks.wavelengths()), peaks.medianSigma());
     }
 
     /** {@link #shiftsTried()} from the peaks' sorted wavelengths and their typical uncertainty. */
@@ -463,8 +462,7 @@ public final class Identification {
         int[] counted = new int[count];
         double[] allVariance = new double[count];
         double[] sorted = ascending(peaks.wavelengths());
-        double[] sigmas = ascending(peaks.sigmas());
-        double typicalSigma = sigmas[sigmas.length / 2];
+        double typicalSigma = peaks.medianSigma();
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
         double trials = shiftsTried(sorted, typicalSigma);

@@ -1166,15 +1166,20 @@ public final class Identifier {
 
     private void identifyChecks(PeakList peaks, LineCatalog lines) {
         if (tolerance.kind() == Tolerance.Kind.K_SIGMA && lines.maxSigma() == 0) {
-            boolean any = false;
-            for (double s : peaks.sigmas()) {
-                any |= s > 0;
-            }
-            if (!any) {
+            if (!anyPositive(peaks.sigmas())) {
                 throw new IdentificationException(IdentificationException.NO_WINDOW, "a k-sigma tolerance needs uncertainties, but neither the peaks nor "
                         + "the lines have any; give them, or use an absolute or relative tolerance");
             }
         }
+    }
+
+    private static boolean anyPositive(double[] values) {
+        for (double v : values) {
+            if (v > 0) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /** @return the permutation sorting the positions, or null when already sorted */

@@ -35,8 +35,16 @@ public final class LineCatalog {
     /** The largest distance of a component below its line's wavelength, and above it (metres). */
     private final double partsBelow;
     private final double partsAbove;
-    /** Per line, the widest gap between neighbouring components (0 without components). */
-    private final double[] widestGap;
+    /**
+     * Per line with two or more components, the distinct gaps between neighbouring components,
+     * widest first; null for every other line, or null altogether when no line has components.
+     */
+    private final double[][] gapLevels;
+    /**
+     * Per line of {@link #gapLevels}: at index L - 1, the weighted centres of the groups its
+     * components form when parted at the L widest distinct gaps (metres, ascending).
+     */
+    private final double[][][] groupCentres;
     /** The lines at least as strong as a threshold, ascending; found on first use (one object, so threads agree). */
     private volatile StrongLines strongLines;
 
@@ -63,10 +71,16 @@ public final class LineCatalog {
         }
         this.partsBelow = below;
         this.partsAbove = above;
-        this.widestGap = new double[wavelength.length];
+        this.gapLevels = parts == null ? null : new double[parts.length][];
+        this.groupCentres = parts == null ? null : new double[parts.length][][];
         for (int j = 0; parts != null && j < parts.length; j++) {
-            for (int k = 1; parts[j] != null && k < parts[j].length; k++) {
-                widestGap[j] = Math.max(widestGap[j], parts[j][k] - parts[j][k - 1]);
+            if (parts[j] != null && parts[j].length >= 2) {
+                gapLevels[j] = distinctGapsWidestFirst(parts[j]);
+                groupCentres[j] = new double[gapLevels[j].length][];
+                for (int level = 1; level <= gapLevels[j].length; level++) {
+                    groupCentres[j][level - 1] = groupCentres(wavelength[j], parts[j], partWeights[j],
+                            gapLevels[j][level - 1]);
+                }
             }
         }
         this.wavelength = wavelength;
@@ -182,38 +196,75 @@ public final class LineCatalog {
      */
     public double nearestPosition(int j, double x, double reach) {
         double best = wavelength[j];
-        double[] offsets = parts == null ? null : parts[j];
-        if (offsets == null || offsets.length < 2 || widestGap[j] <= 2 * reach) {
-            return best; // one group
+        int level = partition(j, reach);
+        if (level == 0) {
+            return best; // one group: the instrument sees the centroid
         }
-        double[] weights = partWeights[j];
-        double sum = 0;
-        double weighted = 0;
-        for (int k = 0; k < offsets.length; k++) {
-            sum += weights[k];
-            weighted += weights[k] * offsets[k];
-            boolean last = k == offsets.length - 1;
-            if (last || offsets[k + 1] - offsets[k] > 2 * reach) {
-                if (last && sum == total(weights)) {
-                    return best; // one group: the instrument sees the centroid
-                }
-                double at = wavelength[j] + weighted / sum;
-                if (Math.abs(x - at) < Math.abs(x - best)) {
-                    best = at;
-                }
-                sum = 0;
-                weighted = 0;
+        for (double at : groupCentres[j][level - 1]) {
+            if (Math.abs(x - at) < Math.abs(x - best)) {
+                best = at;
             }
         }
         return best;
     }
 
-    private static double total(double[] weights) {
-        double sum = 0;
-        for (double w : weights) {
-            sum += w;
+    /**
+     * How line j's components part at half-width h: into the groups left by every gap wider
+     * than 2 h, which are the L widest distinct gaps.
+     *
+     * @return L, or 0 where they form one group (or the line has fewer than two components)
+     */
+    private int partition(int j, double h) {
+        double[] gaps = gapLevels == null ? null : gapLevels[j];
+        if (gaps == null || gaps[0] <= 2 * h) {
+            return 0;
         }
-        return sum;
+        int level = 1;
+        while (level < gaps.length && gaps[level] > 2 * h) {
+            level++;
+        }
+        return level;
+    }
+
+    /** @return the distinct gaps between neighbouring offsets (ascending), widest first */
+    private static double[] distinctGapsWidestFirst(double[] offsets) {
+        double[] gaps = new double[offsets.length - 1];
+        for (int k = 1; k < offsets.length; k++) {
+            gaps[k - 1] = offsets[k] - offsets[k - 1];
+        }
+        Arrays.sort(gaps);
+        double[] distinct = new double[gaps.length];
+        int n = 0;
+        for (int k = gaps.length - 1; k >= 0; k--) {
+            if (n == 0 || gaps[k] != distinct[n - 1]) {
+                distinct[n++] = gaps[k];
+            }
+        }
+        return Arrays.copyOf(distinct, n);
+    }
+
+    /**
+     * @param centroid the line's wavelength, metres
+     * @param offsets  its components' offsets from it, ascending, metres
+     * @param weights  their relative strengths
+     * @param cut      the narrowest gap that parts the groups
+     * @return the groups' strength-weighted centres, ascending, metres
+     */
+    private static double[] groupCentres(double centroid, double[] offsets, double[] weights, double cut) {
+        double[] at = new double[offsets.length];
+        int n = 0;
+        double sum = 0;
+        double weighted = 0;
+        for (int k = 0; k < offsets.length; k++) {
+            sum += weights[k];
+            weighted += weights[k] * offsets[k];
+            if (k == offsets.length - 1 || offsets[k + 1] - offsets[k] >= cut) {
+                at[n++] = centroid + weighted / sum;
+                sum = 0;
+                weighted = 0;
+            }
+        }
+        return Arrays.copyOf(at, n);
     }
 
     /**
@@ -223,26 +274,15 @@ public final class LineCatalog {
      *         then its component groups' centroids where they part at that h; metres
      */
     double[] positions(int j, double reach) {
-        double[] offsets = parts == null ? null : parts[j];
-        if (offsets == null || offsets.length < 2) {
+        int level = partition(j, reach);
+        if (level == 0) {
             return new double[] {wavelength[j]};
         }
-        double[] weights = partWeights[j];
-        double[] at = new double[offsets.length + 1];
+        double[] centres = groupCentres[j][level - 1];
+        double[] at = new double[centres.length + 1];
         at[0] = wavelength[j];
-        int n = 1;
-        double sum = 0;
-        double weighted = 0;
-        for (int k = 0; k < offsets.length; k++) {
-            sum += weights[k];
-            weighted += weights[k] * offsets[k];
-            if (k == offsets.length - 1 || offsets[k + 1] - offsets[k] > 2 * reach) {
-                at[n++] = wavelength[j] + weighted / sum;
-                sum = 0;
-                weighted = 0;
-            }
-        }
-        return n == 2 ? new double[] {wavelength[j]} : Arrays.copyOf(at, n);
+        System.arraycopy(centres, 0, at, 1, centres.length);
+        return at;
     }
 
     /**
@@ -281,17 +321,34 @@ public final class LineCatalog {
      * @return the length, metres
      */
     double windowLength(int j, double h) {
-        double[] offsets = parts == null ? null : parts[j];
-        if (offsets == null || offsets.length < 2 || widestGap[j] <= 2 * h) {
+        int level = partition(j, h);
+        if (level == 0) {
             return 2 * h; // one group: seen at the centroid only
         }
-        double[] at = positions(j, h);
-        Arrays.sort(at);
-        double length = 2 * h;
-        for (int k = 1; k < at.length; k++) {
-            length += Math.min(2 * h, at[k] - at[k - 1]);
+        // The positions in ascending order without allocating (this runs for every line of every
+        // presence figure): the centroid slotted in before the first group centre not below it.
+        double centroid = wavelength[j];
+        boolean centroidPlaced = false;
+        double previous = Double.NaN;
+        double length = 0;
+        for (double at : groupCentres[j][level - 1]) {
+            if (!centroidPlaced && centroid <= at) {
+                length += windowStep(previous, centroid, h);
+                previous = centroid;
+                centroidPlaced = true;
+            }
+            length += windowStep(previous, at, h);
+            previous = at;
         }
-        return length;
+        return centroidPlaced ? length : length + windowStep(previous, centroid, h);
+    }
+
+    /**
+     * @return what a window of half-width h at {@code at} adds to the union of windows at
+     *         positions up to {@code previous} (NaN: none yet)
+     */
+    private static double windowStep(double previous, double at, double h) {
+        return Double.isNaN(previous) ? 2 * h : Math.min(2 * h, at - previous);
     }
 
     /**

@@ -18,6 +18,11 @@ public final class PeakList {
     /** The shortest and the longest vacuum wavelength, metres. */
     private final double shortest;
     private final double longest;
+    /**
+     * The median uncertainty, worked out when first asked (null until then). Threads that race
+     * work out the same value; a Double is immutable, so none sees a half-made one.
+     */
+    private Double medianSigma;
 
     private PeakList(double[] wavelength, double[] sigma, double[] intensity) {
         this.wavelength = wavelength;
@@ -168,5 +173,23 @@ public final class PeakList {
 
     double[] sigmas() {
         return sigma;
+    }
+
+    /** @return the peaks' median uncertainty (the upper one of an even count), metres */
+    double medianSigma() {
+        Double median = medianSigma;
+        if (median == null) {
+            double[] sorted = sigma;
+            for (int i = 1; i < sorted.length; i++) {
+                if (sorted[i - 1] > sorted[i]) {
+                    sorted = sigma.clone();
+                    Arrays.sort(sorted);
+                    break;
+                }
+            }
+            median = sorted[sorted.length / 2];
+            medianSigma = median;
+        }
+        return median;
     }
 }
