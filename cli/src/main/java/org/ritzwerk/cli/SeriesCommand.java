@@ -360,7 +360,7 @@ final class SeriesCommand implements Callable<Integer> {
                 SeriesFit.AveragedPrediction a = averaged.get(i);
                 String name = fit.series().get(p.series()).name();
                 Double mean = a.energyPerCm().isPresent() ? a.energyPerCm().getAsDouble() : null;
-                Double u = mean == null ? null : a.uncertaintyPerCm();
+                Double u = mean == null ? null : a.uncertaintyPerCm().getAsDouble();
                 if (p.member().isEmpty()) {
                     predicted.add("prediction", name, p.n(), null, null, null, null, null, mean, u,
                             "withheld (see note)");

@@ -12,8 +12,10 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
 /**
  * The result of a {@link SeriesFitter}: the series limit and each series' quantum-defect
  * coefficients with their covariance, the members' residuals, chi^2, and every model tried with its
- * information criterion; predictions of members not measured. Energies in cm^-1 above the ground
- * level.
+ * information criterion; predictions of members not measured. Where the criterion chose the terms,
+ * the limit, the defects and the predictions also averaged over the models tried
+ * ({@link #modelAveragedLimit()}, {@link #modelAveragedDefects}, {@link #modelAveragedPredictions}),
+ * whose uncertainties include that choice. Energies in cm^-1 above the ground level.
  *
  * <p><b>Goodness of fit.</b> The stated uncertainties ({@link #covariance()}) hold only when the
  * model and the data are right: the members follow the Rydberg-Ritz formula with the chosen terms
@@ -117,13 +119,13 @@ public final class SeriesFit {
      *                         ground level; empty where withheld
      * @param uncertaintyPerCm its unconditional standard uncertainty {@code sqrt(sum w_k (u_k^2 + (E_k - E)^2))},
      *                         u_k each model's own (covariance and, below the lowest member, truncation), cm^-1;
-     *                         NaN where withheld
+     *                         empty where withheld
      * @param leftOutWeight    the weight of the models that give no member at n, 0 to 1 (left out of the average
      *                         while below {@link #NEGLIGIBLE_WEIGHT})
      * @param note             why it is withheld, that it lies below the measured members, or which models were
      *                         left out; empty otherwise
      */
-    public record AveragedPrediction(int series, int n, OptionalDouble energyPerCm, double uncertaintyPerCm,
+    public record AveragedPrediction(int series, int n, OptionalDouble energyPerCm, OptionalDouble uncertaintyPerCm,
             double leftOutWeight, Optional<String> note) {
     }
 
@@ -653,10 +655,10 @@ public final class SeriesFit {
         }
         String name = model.series.get(s).name();
         if (mine.member().isEmpty()) {
-            return new AveragedPrediction(s, k, OptionalDouble.empty(), Double.NaN, leftOut, mine.note());
+            return new AveragedPrediction(s, k, OptionalDouble.empty(), OptionalDouble.empty(), leftOut, mine.note());
         }
         if (leftOut >= NEGLIGIBLE_WEIGHT) {
-            return new AveragedPrediction(s, k, OptionalDouble.empty(), Double.NaN, leftOut, Optional.of(
+            return new AveragedPrediction(s, k, OptionalDouble.empty(), OptionalDouble.empty(), leftOut, Optional.of(
                     String.format(Locale.ROOT, "the model-averaged %s n = %d is withheld: the models with terms %s, "
                     + "%.3g of the weight, give no member there (%s)", name, k, String.join(", ", lacking), leftOut,
                     firstReason)));
@@ -668,7 +670,7 @@ public final class SeriesFit {
                     + "of %s at n = %d and are left out of its average", String.join(", ", lacking), leftOut, name, k);
             note = Optional.of(note.map(t -> t + "; " + more).orElse(more));
         }
-        return new AveragedPrediction(s, k, OptionalDouble.of(a[0]), a[1], leftOut, note);
+        return new AveragedPrediction(s, k, OptionalDouble.of(a[0]), OptionalDouble.of(a[1]), leftOut, note);
     }
 
     /**
