@@ -100,7 +100,7 @@ class SeriesCommandTest {
         assertEquals(1.3464622, parameters.get("nD5/2 d0").get("value").asDouble(), 1e-8);
         assertEquals(-0.594, parameters.get("nD5/2 d2").get("value").asDouble(), 1e-5);
         assertTrue(parameters.get("limit").get("uncertainty").asDouble() > 0);
-        // the limit averaged over the models tried (BIC weights; Buckland et al. 1997): the same limit here,
+        // the limit averaged over the models tried (BIC weights; Burnham and Anderson 2002): the same limit here,
         // its uncertainty at least the chosen model's (each model's own, plus their spread, weighted)
         JsonNode averaged = parameters.get("limit, model-averaged");
         assertEquals(LIMIT, averaged.get("value").asDouble(), 1e-6);

@@ -59,10 +59,10 @@ class SeriesFitterTest {
      * Coverage with the terms chosen by the criterion, over 400 seeded trials of two series (n = 20, 22,
      * ..., 60, u = 0.002 cm^-1, invented defects of two terms each; about 10 % of trials gain a spurious
      * term): the chosen model's own uncertainty undercovers (rms pull above 1), the model-averaged limit
-     * (Buckland et al. 1997) covers at least the nominal rate. Bounds: 400 unit normals give an rms
-     * within 0.035 of 1 and a share within 1.96 sigma of 0.95 within 0.011 (one sigma each); the
-     * averaged interval is known to be somewhat conservative (Burnham &amp; Anderson 2002), so its rms
-     * may lie below 1.
+     * (Burnham &amp; Anderson 2002, after Buckland et al. 1997) covers at least the nominal rate. Bounds:
+     * 400 unit normals give an rms within 0.035 of 1 and a share within 1.96 sigma of 0.95 within 0.011
+     * (one sigma each); the averaged interval is known to be somewhat conservative (Burnham &amp;
+     * Anderson 2002), so its rms may lie below 1.
      */
     @Test
     void theModelAveragedLimitKeepsItsCoverageWhenTheCriterionChooses() {
