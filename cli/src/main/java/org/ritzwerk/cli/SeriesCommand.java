@@ -28,7 +28,9 @@ import picocli.CommandLine.Spec;
                 + "delta = d0 + d2/(n-d0)^2 + ..., with the isotope's reduced-mass Rydberg constant R_M; all "
                 + "series in the file share one limit. The number of defect terms of each series is chosen by "
                 + "the Bayesian information criterion (chi^2 + p ln N) unless --terms fixes it. Prints the "
-                + "limit and defects with their uncertainties, the covariance, each member's residual and the "
+                + "limit and defects with their uncertainties (and, when the criterion chose, the limit and "
+                + "defects averaged over the models tried with BIC weights, whose uncertainties include the "
+                + "choice of terms), the chosen model's covariance, each member's residual and the "
                 + "models tried; in csv the sections follow one another, each with its header row. The fit's "
                 + "chi-square probability is given; below 0.001 the fit is called improbable and a note says the "
                 + "stated uncertainties assume the model and the data right (column u x S scales them by "
@@ -70,7 +72,10 @@ final class SeriesCommand implements Callable<Integer> {
                     + "is not physically ordered from the n up through its members (n - delta(n) not positive, "
                     + "energy not rising, at or above the limit, or below the ground level) the prediction is "
                     + "withheld with a note and the other series are still predicted; below a series' lowest "
-                    + "member the uncertainty includes the defect expansion's truncation (noted).")
+                    + "member the uncertainty includes the defect expansion's truncation (noted). Columns "
+                    + "'averaged' and 'u avg' give the member averaged over the models tried (BIC weights, the "
+                    + "spread between the models included), withheld where the chosen model's is or where models "
+                    + "with 0.1 %% of the weight or more give none.")
     List<Integer> predict = new ArrayList<>();
 
     @Option(names = "--plot", paramLabel = "FILE.png",
@@ -148,16 +153,25 @@ final class SeriesCommand implements Callable<Integer> {
         }
         List<SeriesFit.Prediction> predictions = fit.predictions(predict.stream().mapToInt(Integer::intValue)
                 .toArray());
+        List<SeriesFit.AveragedPrediction> averaged = fit.modelAveragedPredictions(predict.stream()
+                .mapToInt(Integer::intValue).toArray());
         PrintWriter err = spec.commandLine().getErr();
-        for (SeriesFit.Prediction p : predictions) {
+        for (int i = 0; i < predictions.size(); i++) {
+            SeriesFit.Prediction p = predictions.get(i);
             p.note().ifPresent(note -> err.println("note: --predict " + p.n() + ": " + note));
+            // the average's own note where it says more (models left out, or withheld though the chosen model predicts)
+            String mine = p.note().orElse("");
+            averaged.get(i).note().filter(note -> !note.equals(mine))
+                    .map(note -> !mine.isEmpty() && note.startsWith(mine + "; ") ? note.substring(mine.length() + 2)
+                            : note)
+                    .ifPresent(note -> err.println("note: --predict " + p.n() + ": " + note));
         }
         for (String note : fit.notes()) {
             err.println("note: " + note);
         }
         noteKnownLimit(fit);
         err.flush();
-        print(fit, contents, predictions);
+        print(fit, contents, predictions, averaged);
         if (plot != null) {
             try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
                 Plots.writeChart(batch, plot, defectChart(fit, plotted, contents));
@@ -232,7 +246,8 @@ final class SeriesCommand implements Callable<Integer> {
         return String.join(",", limit.stream().map(String::valueOf).toList());
     }
 
-    private void print(SeriesFit fit, SeriesFiles.Contents contents, List<SeriesFit.Prediction> predictions) {
+    private void print(SeriesFit fit, SeriesFiles.Contents contents, List<SeriesFit.Prediction> predictions,
+            List<SeriesFit.AveragedPrediction> averaged) {
         PrintWriter out = spec.commandLine().getOut();
         boolean text = format == Table.Format.text;
         if (text) {
@@ -281,10 +296,18 @@ final class SeriesCommand implements Callable<Integer> {
             }
         }
         if (fit.candidates().size() > 1) {
-            // the limit over the models tried, BIC-weighted, with the uncertainty of the choice of terms
+            // the limit and defects over the models tried, BIC-weighted, with the uncertainty of the choice of terms
             SeriesFit.ModelAverage average = fit.modelAveragedLimit();
             parameters.add("parameter", "limit, model-averaged", average.limitPerCm(), average.uncertaintyPerCm(),
                     null, "cm-1");
+            for (int s = 0; s < fit.series().size(); s++) {
+                double[] d = fit.modelAveragedDefects(s);
+                double[] u = fit.modelAveragedDefectUncertainties(s);
+                for (int k = 0; k < d.length; k++) {
+                    parameters.add("parameter", fit.series().get(s).name() + " d" + 2 * k + ", model-averaged", d[k],
+                            u[k], null, "");
+                }
+            }
         }
         parameters.finish();
         section(text, "covariance (limit in cm-1, defects dimensionless)");
@@ -327,18 +350,27 @@ final class SeriesCommand implements Callable<Integer> {
                     Table.Column.number("uncertainty_per_cm", "u cm-1", "%.3g"),
                     Table.Column.number("scaled_uncertainty_per_cm", "u x S cm-1", "%.3g"),
                     Table.Column.number("truncation_per_cm", "trunc. cm-1", "%.3g"),
-                    Table.Column.number("quantum_defect", "defect", "%.6f"), Table.Column.text("note", "note")),
+                    Table.Column.number("quantum_defect", "defect", "%.6f"),
+                    Table.Column.number("averaged_energy_per_cm", "averaged cm-1", "%.6f"),
+                    Table.Column.number("averaged_uncertainty_per_cm", "u avg cm-1", "%.3g"),
+                    Table.Column.text("note", "note")),
                     out, format);
-            for (SeriesFit.Prediction p : predictions) {
+            for (int i = 0; i < predictions.size(); i++) {
+                SeriesFit.Prediction p = predictions.get(i);
+                SeriesFit.AveragedPrediction a = averaged.get(i);
                 String name = fit.series().get(p.series()).name();
+                Double mean = a.energyPerCm().isPresent() ? a.energyPerCm().getAsDouble() : null;
+                Double u = mean == null ? null : a.uncertaintyPerCm().getAsDouble();
                 if (p.member().isEmpty()) {
-                    predicted.add("prediction", name, p.n(), null, null, null, null, null, "withheld (see note)");
+                    predicted.add("prediction", name, p.n(), null, null, null, null, null, mean, u,
+                            "withheld (see note)");
                     continue;
                 }
                 SeriesFit.Member m = p.member().get();
                 predicted.add("prediction", name, p.n(), m.energyPerCm(), p.uncertaintyPerCm(1),
-                        p.uncertaintyPerCm(scale), p.truncationPerCm(), m.quantumDefect(),
-                        p.note().isPresent() ? "below the measured members" : null);
+                        p.uncertaintyPerCm(scale), p.truncationPerCm(), m.quantumDefect(), mean, u,
+                        mean == null ? "averaged withheld (see note)"
+                                : p.note().isPresent() ? "below the measured members" : null);
             }
             predicted.finish();
         }

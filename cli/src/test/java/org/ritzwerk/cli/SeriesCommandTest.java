@@ -71,7 +71,15 @@ class SeriesCommandTest {
                     members++;
                     assertTrue(Math.abs(row.get("normalised_residual").asDouble()) < 1e-3, line);
                 }
-                case "prediction" -> predictions++;
+                case "prediction" -> {
+                    predictions++;
+                    // the member averaged over the models tried: the same energy here (every model with weight
+                    // fits the exact members), its uncertainty with the models' own (Burnham and Anderson 2002)
+                    assertEquals(row.get("energy_per_cm").asDouble(), row.get("averaged_energy_per_cm").asDouble(),
+                            1e-6, line);
+                    assertTrue(row.get("averaged_uncertainty_per_cm").asDouble()
+                            >= row.get("uncertainty_per_cm").asDouble(), line);
+                }
                 case "fit" -> {
                     // the text's first line as a row: species, counts, R_M, chi2 and its degrees of freedom
                     assertEquals("Rb-87 I", row.get("species").asString());
@@ -92,12 +100,32 @@ class SeriesCommandTest {
         assertEquals(1.3464622, parameters.get("nD5/2 d0").get("value").asDouble(), 1e-8);
         assertEquals(-0.594, parameters.get("nD5/2 d2").get("value").asDouble(), 1e-5);
         assertTrue(parameters.get("limit").get("uncertainty").asDouble() > 0);
-        // the limit averaged over the models tried (BIC weights; Buckland et al. 1997): the same limit here,
+        // the limit averaged over the models tried (BIC weights; Burnham and Anderson 2002): the same limit here,
         // its uncertainty at least the chosen model's (each model's own, plus their spread, weighted)
         JsonNode averaged = parameters.get("limit, model-averaged");
         assertEquals(LIMIT, averaged.get("value").asDouble(), 1e-6);
         assertTrue(averaged.get("uncertainty").asDouble() >= parameters.get("limit").get("uncertainty").asDouble());
         assertEquals(1.0, weights, 1e-9);
+        // so are the defects, d4 included (a term only the three-term models hold, 0 in the others)
+        for (String d : new String[] {"nS1/2 d0", "nS1/2 d2", "nD5/2 d0", "nD5/2 d2"}) {
+            JsonNode one = parameters.get(d + ", model-averaged");
+            assertEquals(parameters.get(d).get("value").asDouble(), one.get("value").asDouble(), 1e-8, d);
+            assertTrue(one.get("uncertainty").asDouble() > parameters.get(d).get("uncertainty").asDouble(), d);
+            assertTrue(one.get("scaled_uncertainty").isNull(), d);
+        }
+        assertTrue(parameters.containsKey("nS1/2 d4, model-averaged") && !parameters.containsKey("nS1/2 d4"));
+        // with the terms fixed there is one model: no averaged rows, the averaged prediction is the fit's
+        CliTest.Run fixed = CliTest.run("series", file.toString(), "--terms", "2,2", "--predict", "60", "--format",
+                "json");
+        assertEquals(0, fixed.code(), fixed.err());
+        assertFalse(fixed.out().contains("model-averaged"), fixed.out());
+        for (String line : fixed.out().strip().split("\\R")) {
+            JsonNode row = json.readTree(line);
+            if (row.get("kind").asString().equals("prediction")) {
+                assertEquals(row.get("uncertainty_per_cm").asDouble(),
+                        row.get("averaged_uncertainty_per_cm").asDouble(), 1e-12, line);
+            }
+        }
 
         CliTest.Run text = CliTest.run("series", file.toString());
         assertEquals(0, text.code(), text.err());
@@ -392,5 +420,42 @@ class SeriesCommandTest {
             }
         }
         assertEquals(1, seen, run.out());
+    }
+
+    /**
+     * A series whose d2 is small (invented, 0.01; members exact with the built-in Rb-87 limit of Mack et al.
+     * 2011): the criterion keeps d2, but the model with d0 alone keeps about 6 % of the weight and cannot be
+     * extrapolated below the members, so the averaged member at n = 10 is withheld with a note naming that
+     * model while the chosen model's is given; above the members both are given.
+     */
+    @Test
+    void anAveragedMemberIsWithheldWhereAWeightyModelGivesNone(@TempDir Path dir) throws IOException {
+        StringBuilder b = new StringBuilder("# ritzwerk-series 1\n# species: Rb-87 I\n# energy-unit: cm-1\n"
+                + "series,n,energy,uncertainty\n");
+        double rydberg = 109736.623008; // Rb-87 R_M as the example file's header gives it (SeriesFitterTest)
+        for (int n = 20; n <= 40; n += 2) {
+            b.append(String.format(java.util.Locale.ROOT, "x,%d,%.9f,0.0001%n", n,
+                    org.ritzwerk.engine.rydberg.AlkaliAtom.rydbergRitzEnergy(LIMIT, rydberg, java.util.List.of(
+                            3.1311807, 0.01), n)));
+        }
+        Path file = dir.resolve("small-d2.csv");
+        Files.writeString(file, b);
+        CliTest.Run run = CliTest.run("series", file.toString(), "--predict", "10,50", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.err().contains("note: --predict 10: the model-averaged x n = 10 is withheld: the models with "
+                + "terms [1], 0.06"), run.err());
+        JsonMapper json = JsonMapper.builder().build();
+        int seen = 0;
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode row = json.readTree(line);
+            if (row.get("kind").asString().equals("prediction")) {
+                boolean ten = row.get("n").asInt() == 10;
+                assertFalse(row.get("energy_per_cm").isNull(), line);
+                assertEquals(ten, row.get("averaged_energy_per_cm").isNull(), line);
+                assertEquals(ten, "averaged withheld (see note)".equals(row.get("note").asString(null)), line);
+                seen++;
+            }
+        }
+        assertEquals(2, seen, run.out());
     }
 }

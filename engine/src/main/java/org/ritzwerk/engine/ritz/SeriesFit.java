@@ -12,8 +12,10 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
 /**
  * The result of a {@link SeriesFitter}: the series limit and each series' quantum-defect
  * coefficients with their covariance, the members' residuals, chi^2, and every model tried with its
- * information criterion; predictions of members not measured. Energies in cm^-1 above the ground
- * level.
+ * information criterion; predictions of members not measured. Where the criterion chose the terms,
+ * the limit, the defects and the predictions also averaged over the models tried
+ * ({@link #modelAveragedLimit()}, {@link #modelAveragedDefects}, {@link #modelAveragedPredictions}),
+ * whose uncertainties include that choice. Energies in cm^-1 above the ground level.
  *
  * <p><b>Goodness of fit.</b> The stated uncertainties ({@link #covariance()}) hold only when the
  * model and the data are right: the members follow the Rydberg-Ritz formula with the chosen terms
@@ -41,6 +43,12 @@ public final class SeriesFit {
      * uncertainties look overstated (common practice: the lower tail at the same 0.1 %).
      */
     public static final double TOO_GOOD_PROBABILITY = 1e-3;
+    /**
+     * Models that give no member at an n and together carry less than this BIC weight are left out of
+     * the averaged prediction there ({@link #modelAveragedPredictions}); with more it is withheld (our
+     * choice: a model left out with weight w moves the average by about w times its distance from it).
+     */
+    public static final double NEGLIGIBLE_WEIGHT = 1e-3;
 
     /**
      * One model the fitter tried.
@@ -103,6 +111,25 @@ public final class SeriesFit {
     }
 
     /**
+     * A member of a series averaged over the models tried ({@link #modelAveragedPredictions}).
+     *
+     * @param series           the series index
+     * @param n                the principal quantum number asked
+     * @param energyPerCm      {@code E = sum w_k E_k} over the models that give the member, cm^-1 above the
+     *                         ground level; empty where withheld
+     * @param uncertaintyPerCm its unconditional standard uncertainty {@code sqrt(sum w_k (u_k^2 + (E_k - E)^2))},
+     *                         u_k each model's own (covariance and, below the lowest member, truncation), cm^-1;
+     *                         empty where withheld
+     * @param leftOutWeight    the weight of the models that give no member at n, 0 to 1 (left out of the average
+     *                         while below {@link #NEGLIGIBLE_WEIGHT})
+     * @param note             why it is withheld, that it lies below the measured members, or which models were
+     *                         left out; empty otherwise
+     */
+    public record AveragedPrediction(int series, int n, OptionalDouble energyPerCm, OptionalDouble uncertaintyPerCm,
+            double leftOutWeight, Optional<String> note) {
+    }
+
+    /**
      * The refit without one member ({@link #bestDeletion()}): the member left out and what the fit
      * then gives.
      *
@@ -122,29 +149,38 @@ public final class SeriesFit {
     }
 
     private final SeriesFitter.Model model;
+    private final SeriesFitter.Solution chosen;
     private final int[] terms;
     private final double[] parameters;
     private final double[][] covariance;
     private final double chiSquare;
     private final int points;
+    /** Every model tried, in the order of {@link #candidates}, the chosen one among them. */
+    private final List<SeriesFitter.Solution> tried;
     private final List<Candidate> candidates;
     private final Deletion deletion;
 
-    SeriesFit(SeriesFitter.Model model, int[] terms, double[] parameters, double[][] covariance, double chiSquare,
-            int points, List<Candidate> candidates, Deletion deletion) {
+    SeriesFit(SeriesFitter.Model model, SeriesFitter.Solution chosen, int points, List<SeriesFitter.Solution> tried,
+            Deletion deletion) {
         this.model = model;
-        this.terms = terms;
-        this.parameters = parameters;
-        this.covariance = covariance;
-        this.chiSquare = chiSquare;
+        this.chosen = chosen;
+        this.terms = chosen.terms;
+        this.parameters = chosen.parameters;
+        this.covariance = chosen.covariance;
+        this.chiSquare = chosen.chiSquare;
         this.points = points;
-        this.candidates = List.copyOf(candidates);
+        this.tried = List.copyOf(tried);
+        List<Candidate> c = new ArrayList<>();
+        for (SeriesFitter.Solution t : tried) {
+            c.add(t.candidate(points, model.offset));
+        }
+        this.candidates = List.copyOf(c);
         this.deletion = deletion;
     }
 
     /** @return this fit with the deletion diagnostic (null: none) */
     SeriesFit withDeletion(Deletion d) {
-        return new SeriesFit(model, terms, parameters, covariance, chiSquare, points, candidates, d);
+        return new SeriesFit(model, chosen, points, tried, d);
     }
 
     /**
@@ -428,17 +464,39 @@ public final class SeriesFit {
     /**
      * The limit averaged over the models tried, with BIC weights
      * {@code w_k = exp(-(BIC_k - BIC_min) / 2) / sum}, the average {@code L = sum w_k L_k} and the
-     * unconditional standard uncertainty {@code u = sum w_k sqrt(u_k^2 + (L_k - L)^2)} (S. T. Buckland,
-     * K. P. Burnham and N. H. Augustin, Biometrics 53, 603 (1997), eq. 9; K. P. Burnham and D. R.
-     * Anderson, Model Selection and Multimodel Inference, 2nd ed. (2002), eq. 4.9; both from memory).
-     * It carries the uncertainty of the choice of terms, which {@link #limitUncertaintyPerCm()} (the
-     * chosen model's alone) leaves out: see {@link SeriesFitter} for the coverage of both on seeded
-     * series. The models are those the stepwise search tried, not every combination of terms; with the
-     * terms fixed there is one, and the average is the fit's own limit.
+     * unconditional standard uncertainty {@code u = sqrt(sum w_k (u_k^2 + (L_k - L)^2))} (K. P. Burnham and
+     * D. R. Anderson, Model Selection and Multimodel Inference, 2nd ed. (2002), the form that squares
+     * inside the sum, which they give beside S. T. Buckland, K. P. Burnham and N. H. Augustin, Biometrics
+     * 53, 603 (1997), eq. 9, {@code u = sum w_k sqrt(u_k^2 + (L_k - L)^2)}; both from memory). The
+     * defects and predictions are averaged the same way ({@link #modelAveragedDefects},
+     * {@link #modelAveragedPredictions}); for the limit the two forms differ little (rms pull 0.92-0.94
+     * against 0.93-0.95 on the seeded series of {@link SeriesFitter}). It carries the uncertainty of the
+     * choice of terms, which {@link #limitUncertaintyPerCm()} (the chosen model's alone) leaves out: see
+     * {@link SeriesFitter} for the coverage of both on seeded series. The models are those the stepwise
+     * search tried, not every combination of terms; with the terms fixed there is one, and the average is
+     * the fit's own limit.
      *
      * @return the averaged limit, its uncertainty and the weights
      */
     public ModelAverage modelAveragedLimit() {
+        double[] w = weights();
+        double[] x = new double[w.length];
+        double[] v = new double[w.length];
+        boolean[] all = new boolean[w.length];
+        List<Double> weights = new ArrayList<>();
+        for (int k = 0; k < w.length; k++) {
+            Candidate c = candidates.get(k);
+            x[k] = c.limitPerCm();
+            v[k] = c.limitUncertaintyPerCm() * c.limitUncertaintyPerCm();
+            all[k] = true;
+            weights.add(w[k]);
+        }
+        double[] a = mixture(w, x, v, all);
+        return new ModelAverage(a[0], a[1], List.copyOf(weights));
+    }
+
+    /** @return the BIC weight of each model tried, in the order of {@link #candidates()}, summing to 1 */
+    private double[] weights() {
         double lowest = Double.POSITIVE_INFINITY;
         for (Candidate c : candidates) {
             lowest = Math.min(lowest, c.bic());
@@ -449,20 +507,170 @@ public final class SeriesFit {
             w[k] = Math.exp(-(candidates.get(k).bic() - lowest) / 2);
             sum += w[k];
         }
-        double mean = 0;
-        List<Double> weights = new ArrayList<>();
         for (int k = 0; k < w.length; k++) {
             w[k] /= sum;
-            weights.add(w[k]);
-            mean += w[k] * candidates.get(k).limitPerCm();
         }
-        double u = 0;
+        return w;
+    }
+
+    /**
+     * The mixture mean and unconditional standard uncertainty over the models: {@code x = sum w_k x_k},
+     * {@code u = sqrt(sum w_k (v_k + (x_k - x)^2))}, the weights renormalised over the models taken.
+     *
+     * @param w     each model's weight
+     * @param x     each model's value
+     * @param v     each model's variance
+     * @param taken which models to take
+     * @return {x, u}
+     */
+    private static double[] mixture(double[] w, double[] x, double[] v, boolean[] taken) {
+        double sum = 0;
+        double mean = 0;
         for (int k = 0; k < w.length; k++) {
-            Candidate c = candidates.get(k);
-            double spread = c.limitPerCm() - mean;
-            u += w[k] * Math.sqrt(c.limitUncertaintyPerCm() * c.limitUncertaintyPerCm() + spread * spread);
+            if (taken[k]) {
+                sum += w[k];
+                mean += w[k] * x[k];
+            }
         }
-        return new ModelAverage(mean, u, List.copyOf(weights));
+        mean /= sum;
+        double variance = 0;
+        for (int k = 0; k < w.length; k++) {
+            if (taken[k]) {
+                double spread = x[k] - mean;
+                variance += w[k] / sum * (v[k] + spread * spread);
+            }
+        }
+        return new double[] {mean, Math.sqrt(variance)};
+    }
+
+    /**
+     * The quantum-defect coefficients of series s averaged over the models tried, with the BIC weights of
+     * {@link #modelAveragedLimit()}: {@code d = sum w_k d_k} and the unconditional standard uncertainty
+     * {@code u = sqrt(sum w_k (u_k^2 + (d_k - d)^2))}, a term a model lacks taken as 0 with no
+     * uncertainty in that model (K. P. Burnham and D. R. Anderson, Model Selection and Multimodel
+     * Inference, 2nd ed. (2002), the unconditional variance of a model-averaged estimate over all the
+     * models, the form that squares inside the sum; after S. T. Buckland, K. P. Burnham and N. H.
+     * Augustin, Biometrics 53, 603 (1997); from memory). It carries the uncertainty of the choice of
+     * terms, which {@link #defectUncertainties} (the chosen model's alone) leaves out, and a term only
+     * some models hold is drawn towards 0 by the weight of those that lack it. Coverage on seeded series:
+     * see {@link SeriesFitter}. With the terms fixed there is one model and these are the fit's own.
+     *
+     * @param s series index
+     * @return d0, d2, ... up to the most terms any model tried gave series s
+     * @throws IllegalArgumentException for a series index out of range
+     */
+    public double[] modelAveragedDefects(int s) {
+        return averagedDefects(s)[0];
+    }
+
+    /**
+     * @param s series index
+     * @return the unconditional standard uncertainties of {@link #modelAveragedDefects}, dimensionless
+     * @throws IllegalArgumentException for a series index out of range
+     */
+    public double[] modelAveragedDefectUncertainties(int s) {
+        return averagedDefects(s)[1];
+    }
+
+    /** @return {values, uncertainties} of series s's averaged defect coefficients */
+    private double[][] averagedDefects(int s) {
+        checkSeries(s);
+        int most = 0;
+        for (SeriesFitter.Solution t : tried) {
+            most = Math.max(most, t.terms[s]);
+        }
+        double[] w = weights();
+        boolean[] all = new boolean[w.length];
+        Arrays.fill(all, true);
+        double[][] out = new double[2][most];
+        for (int k = 0; k < most; k++) {
+            double[] x = new double[w.length];
+            double[] v = new double[w.length];
+            for (int m = 0; m < w.length; m++) {
+                SeriesFitter.Solution t = tried.get(m);
+                if (k < t.terms[s]) {
+                    int at = first(t.terms, s) + k;
+                    x[m] = t.parameters[at];
+                    v[m] = t.covariance[at][at];
+                }
+            }
+            double[] a = mixture(w, x, v, all);
+            out[0][k] = a[0];
+            out[1][k] = a[1];
+        }
+        return out;
+    }
+
+    /**
+     * Every asked member of every series averaged over the models tried, in series order then in the
+     * order asked: each model's prediction ({@link #predictions}, with its safeguards: withheld where
+     * that model's series is not physically ordered or lies below the ground level, below the lowest
+     * member widened by that model's truncation or withheld for a model with d0 alone) weighted by the
+     * BIC weights of {@link #modelAveragedLimit()}, {@code E = sum w_k E_k},
+     * {@code u = sqrt(sum w_k (u_k^2 + (E_k - E)^2))} with u_k that model's whole uncertainty (its
+     * covariance's and its truncation's in quadrature; Burnham and Anderson 2002, as for
+     * {@link #modelAveragedDefects}). Models that give no member at an n are left out there (the rest
+     * renormalised, the weight left out given) while together they carry less than
+     * {@value #NEGLIGIBLE_WEIGHT} of the weight; with more the averaged prediction is withheld, so it
+     * is withheld wherever the chosen model's is (the chosen model carries the most weight, at least
+     * 1 / the number of models). With the terms fixed there is one model and these are
+     * {@link #predictions}.
+     *
+     * @param n principal quantum numbers, each at least 1
+     * @return the averaged predictions
+     * @throws IllegalArgumentException for an n below 1
+     */
+    public List<AveragedPrediction> modelAveragedPredictions(int... n) {
+        checkN(n);
+        double[] w = weights();
+        List<AveragedPrediction> out = new ArrayList<>();
+        for (int s = 0; s < model.series.size(); s++) {
+            for (int k : n) {
+                out.add(averagedPrediction(w, s, k));
+            }
+        }
+        return out;
+    }
+
+    private AveragedPrediction averagedPrediction(double[] w, int s, int k) {
+        Prediction mine = prediction(chosen, s, k);
+        double[] x = new double[w.length];
+        double[] v = new double[w.length];
+        boolean[] taken = new boolean[w.length];
+        double leftOut = 0;
+        List<String> lacking = new ArrayList<>();
+        String firstReason = null;
+        for (int m = 0; m < w.length; m++) {
+            Prediction p = prediction(tried.get(m), s, k);
+            if (p.member().isPresent()) {
+                x[m] = p.member().get().energyPerCm();
+                double u = p.uncertaintyPerCm(1);
+                v[m] = u * u;
+                taken[m] = true;
+            } else {
+                leftOut += w[m];
+                lacking.add(candidates.get(m).terms().toString().replace(" ", ""));
+                firstReason = firstReason == null ? p.note().orElse("") : firstReason;
+            }
+        }
+        String name = model.series.get(s).name();
+        if (mine.member().isEmpty()) {
+            return new AveragedPrediction(s, k, OptionalDouble.empty(), OptionalDouble.empty(), leftOut, mine.note());
+        }
+        if (leftOut >= NEGLIGIBLE_WEIGHT) {
+            return new AveragedPrediction(s, k, OptionalDouble.empty(), OptionalDouble.empty(), leftOut, Optional.of(
+                    String.format(Locale.ROOT, "the model-averaged %s n = %d is withheld: the models with terms %s, "
+                    + "%.3g of the weight, give no member there (%s)", name, k, String.join(", ", lacking), leftOut,
+                    firstReason)));
+        }
+        double[] a = mixture(w, x, v, taken);
+        Optional<String> note = mine.note();
+        if (leftOut > 0) {
+            String more = String.format(Locale.ROOT, "the models with terms %s, %.2g of the weight, give no member "
+                    + "of %s at n = %d and are left out of its average", String.join(", ", lacking), leftOut, name, k);
+            note = Optional.of(note.map(t -> t + "; " + more).orElse(more));
+        }
+        return new AveragedPrediction(s, k, OptionalDouble.of(a[0]), OptionalDouble.of(a[1]), leftOut, note);
     }
 
     /**
@@ -558,57 +766,63 @@ public final class SeriesFit {
      * @throws IllegalArgumentException for an n below 1
      */
     public List<Prediction> predictions(int... n) {
+        checkN(n);
         List<Prediction> out = new ArrayList<>();
         for (int s = 0; s < model.series.size(); s++) {
-            RydbergSeries one = model.series.get(s);
-            int lowest = Integer.MAX_VALUE;
-            int highest = Integer.MIN_VALUE;
-            for (int i = 0; i < one.size(); i++) {
-                lowest = Math.min(lowest, one.n(i));
-                highest = Math.max(highest, one.n(i));
-            }
             for (int k : n) {
-                if (k < 1) {
-                    throw new IllegalArgumentException("n must be at least 1, got " + k);
-                }
-                Member member;
-                try {
-                    member = predict(s, k);
-                } catch (IllegalArgumentException e) {
-                    out.add(withheld(s, k, e.getMessage() + "; not predicted"));
-                    continue;
-                }
-                String disorder = disorder(s, Math.min(k, lowest), Math.max(k, highest));
-                if (disorder != null) {
-                    out.add(withheld(s, k, String.format(Locale.ROOT, "series %s is not physically ordered from "
-                            + "n = %d to %d in the fit: %s; n = %d not predicted", one.name(), Math.min(k, lowest),
-                            Math.max(k, highest), disorder, k)));
-                    continue;
-                }
-                if (member.energyPerCm() < 0) {
-                    out.add(withheld(s, k, String.format(Locale.ROOT, "series %s at n = %d comes out below the "
-                            + "ground level (energies are above it): no such level; not predicted", one.name(), k)));
-                    continue;
-                }
-                if (k >= lowest) {
-                    out.add(new Prediction(s, k, Optional.of(member), 0, Optional.empty()));
-                    continue;
-                }
-                if (terms[s] < 2) {
-                    out.add(withheld(s, k, String.format(Locale.ROOT, "n = %d lies below the lowest member of %s "
-                            + "(n = %d) and the series was fitted with d0 alone: the truncation of the defect "
-                            + "expansion extrapolated downwards cannot be estimated; not predicted", k, one.name(),
-                            lowest)));
-                    continue;
-                }
-                double truncation = truncationPerCm(s, k, member.quantumDefect());
-                out.add(new Prediction(s, k, Optional.of(member), truncation, Optional.of(String.format(Locale.ROOT,
-                        "n = %d lies below the lowest member of %s (n = %d): the defect expansion is extrapolated "
-                        + "downwards there; its uncertainty includes %.3g cm-1 for the truncation (the last "
-                        + "fitted term's size at n = %d)", k, one.name(), lowest, truncation, k))));
+                out.add(prediction(chosen, s, k));
             }
         }
         return out;
+    }
+
+    private static void checkN(int... n) {
+        for (int k : n) {
+            if (k < 1) {
+                throw new IllegalArgumentException("n must be at least 1, got " + k);
+            }
+        }
+    }
+
+    /** The prediction of member n of series s by one model tried, with the safeguards of {@link #predictions}. */
+    private Prediction prediction(SeriesFitter.Solution t, int s, int k) {
+        RydbergSeries one = model.series.get(s);
+        int lowest = Integer.MAX_VALUE;
+        int highest = Integer.MIN_VALUE;
+        for (int i = 0; i < one.size(); i++) {
+            lowest = Math.min(lowest, one.n(i));
+            highest = Math.max(highest, one.n(i));
+        }
+        Member member;
+        try {
+            member = checkedMember(t, s, k);
+        } catch (IllegalArgumentException e) {
+            return withheld(s, k, e.getMessage() + "; not predicted");
+        }
+        String disorder = disorder(t, s, Math.min(k, lowest), Math.max(k, highest));
+        if (disorder != null) {
+            return withheld(s, k, String.format(Locale.ROOT, "series %s is not physically ordered from "
+                    + "n = %d to %d in the fit: %s; n = %d not predicted", one.name(), Math.min(k, lowest),
+                    Math.max(k, highest), disorder, k));
+        }
+        if (member.energyPerCm() < 0) {
+            return withheld(s, k, String.format(Locale.ROOT, "series %s at n = %d comes out below the "
+                    + "ground level (energies are above it): no such level; not predicted", one.name(), k));
+        }
+        if (k >= lowest) {
+            return new Prediction(s, k, Optional.of(member), 0, Optional.empty());
+        }
+        if (t.terms[s] < 2) {
+            return withheld(s, k, String.format(Locale.ROOT, "n = %d lies below the lowest member of %s "
+                    + "(n = %d) and the series was fitted with d0 alone: the truncation of the defect "
+                    + "expansion extrapolated downwards cannot be estimated; not predicted", k, one.name(),
+                    lowest));
+        }
+        double truncation = truncationPerCm(t, s, k, member.quantumDefect());
+        return new Prediction(s, k, Optional.of(member), truncation, Optional.of(String.format(Locale.ROOT,
+                "n = %d lies below the lowest member of %s (n = %d): the defect expansion is extrapolated "
+                + "downwards there; its uncertainty includes %.3g cm-1 for the truncation (the last "
+                + "fitted term's size at n = %d)", k, one.name(), lowest, truncation, k)));
     }
 
     private static Prediction withheld(int s, int n, String note) {
@@ -616,20 +830,20 @@ public final class SeriesFit {
     }
 
     /**
-     * @return why the fitted series is not physically ordered from n = from to n = to (a member with no
-     *         positive effective n, at or above the limit, or not above the one below it), or null
+     * @return why the series as one model fits it is not physically ordered from n = from to n = to (a
+     *         member with no positive effective n, at or above the limit, or not above the one below
+     *         it), or null
      */
-    private String disorder(int s, int from, int to) {
-        double[] d = defects(s);
-        List<Double> c = Arrays.stream(d).boxed().toList();
+    private String disorder(SeriesFitter.Solution t, int s, int from, int to) {
+        List<Double> c = SeriesFitter.Model.coefficients(t.parameters, first(t.terms, s), t.terms[s]);
         double below = Double.NEGATIVE_INFINITY;
-        double limit = limitPerCm();
+        double limit = model.offset + t.parameters[0];
         for (int m = from; m <= to; m++) {
             double delta = AlkaliAtom.rydbergRitzDefect(c, m);
             if (!(m - delta > 0)) {
                 return String.format(Locale.ROOT, "n = %d has no positive effective n (delta %.4g)", m, delta);
             }
-            double e = limitPerCm() - model.rydberg / ((m - delta) * (m - delta));
+            double e = limit - model.rydberg / ((m - delta) * (m - delta));
             if (!(e < limit)) {
                 return String.format(Locale.ROOT, "n = %d lies at or above the limit", m);
             }
@@ -643,10 +857,12 @@ public final class SeriesFit {
     }
 
     /** @return the last fitted defect term's size at n carried to energy, cm^-1 (see {@link #predictions}) */
-    private double truncationPerCm(int s, int n, double delta) {
-        double[] d = defects(s);
-        double x = 1 / ((n - d[0]) * (n - d[0]));
-        double term = d[d.length - 1] * Math.pow(x, d.length - 1);
+    private double truncationPerCm(SeriesFitter.Solution t, int s, int n, double delta) {
+        int at = first(t.terms, s);
+        int count = t.terms[s];
+        double d0 = t.parameters[at];
+        double x = 1 / ((n - d0) * (n - d0));
+        double term = t.parameters[at + count - 1] * Math.pow(x, count - 1);
         double nu = n - delta;
         return Math.abs(term) * 2 * model.rydberg / (nu * nu * nu);
     }
@@ -659,14 +875,22 @@ public final class SeriesFit {
      *                                  fitted defect leaves no positive effective n (no member there)
      */
     public Member predict(int s, int n) {
+        checkSeries(s);
+        if (n < 1) {
+            throw new IllegalArgumentException("n must be at least 1, got " + n);
+        }
+        return checkedMember(chosen, s, n);
+    }
+
+    private void checkSeries(int s) {
         if (s < 0 || s >= model.series.size()) {
             throw new IllegalArgumentException("series index " + s + " out of range: the fit has "
                     + model.series.size() + " series");
         }
-        if (n < 1) {
-            throw new IllegalArgumentException("n must be at least 1, got " + n);
-        }
-        Member member = member(s, n);
+    }
+
+    private Member checkedMember(SeriesFitter.Solution t, int s, int n) {
+        Member member = member(t, s, n);
         if (!(n - member.quantumDefect() > 0) || !Double.isFinite(member.energyPerCm())) {
             throw new IllegalArgumentException(String.format(Locale.ROOT, "series %s has no member at n = %d:"
                     + " its fitted defect %.4f leaves no positive effective n", model.series.get(s).name(), n,
@@ -676,24 +900,35 @@ public final class SeriesFit {
     }
 
     private Member member(int s, int n) {
-        double[] q = parameters;
-        List<Double> c = SeriesFitter.Model.coefficients(q, first(s), terms[s]);
-        double[] g = new double[terms[s]];
+        return member(chosen, s, n);
+    }
+
+    /** Member n of series s as model t gives it, its uncertainty {@code sqrt(g^T C g)} from t's covariance. */
+    private Member member(SeriesFitter.Solution t, int s, int n) {
+        double[] q = t.parameters;
+        int at = first(t.terms, s);
+        List<Double> c = SeriesFitter.Model.coefficients(q, at, t.terms[s]);
+        double[] g = new double[t.terms[s]];
         double e = model.energy(q[0], c, n, g);
         double[] full = new double[q.length];
         full[0] = 1;
-        System.arraycopy(g, 0, full, first(s), g.length);
+        System.arraycopy(g, 0, full, at, g.length);
         double v = 0;
         for (int a = 0; a < full.length; a++) {
             for (int b = 0; b < full.length; b++) {
-                v += full[a] * covariance[a][b] * full[b];
+                v += full[a] * t.covariance[a][b] * full[b];
             }
         }
-        double defect = org.ritzwerk.engine.rydberg.AlkaliAtom.rydbergRitzDefect(c, n);
+        double defect = AlkaliAtom.rydbergRitzDefect(c, n);
         return new Member(n, model.offset + e, Math.sqrt(Math.max(0, v)), defect);
     }
 
     private int first(int s) {
+        return first(terms, s);
+    }
+
+    /** @return the index of series s's d0 in a parameter vector of these terms */
+    private static int first(int[] terms, int s) {
         int at = 1;
         for (int k = 0; k < s; k++) {
             at += terms[k];
