@@ -133,6 +133,7 @@ final class IdentifyCommand implements Callable<Integer> {
         OptionRules.distinct("--lines", lineSets);
         checkOptions();
         PeakFiles.Peaks read = PeakFiles.read(peaksFile);
+        refuseRepeatedPeaks(read, peaksFile);
         noteMissingIntensities(read, peaksFile).ifPresent(spec.commandLine().getErr()::println);
         double[] sigmas = read.allUncertain() ? read.uncertainties() : null;
         PeakList peaks = PeakList.of(read.positions(), sigmas, read.allIntense() ? read.intensities() : null,
@@ -271,11 +272,6 @@ final class IdentifyCommand implements Callable<Integer> {
     }
 
     /**
-     * Under a k-sigma tolerance every peak needs a positive uncertainty: one of 0 could only match a
-     * line of uncertainty 0 exactly, and one left empty cannot be weighed. Refuses them all, each
-     * named by its file line, instead of leaving them unexplained.
-     */
-    /**
      * Intensities weigh the matches only when every peak has one: a file where some peaks lack
      * one has them all left out, which a note says, naming the peaks without.
      */
@@ -299,6 +295,41 @@ final class IdentifyCommand implements Callable<Integer> {
                 + "); give every peak an intensity, or none");
     }
 
+    /**
+     * A peak list holds each peak once: a repeated line (a copy and paste) would count its lines
+     * twice and narrow the shift's uncertainty. Refuses every repeat, named by its file line and
+     * the line it repeats (the engine refuses them too, by peak number).
+     */
+    static void refuseRepeatedPeaks(PeakFiles.Peaks read, Path file) {
+        double[] positions = read.positions();
+        int[] fileLines = read.lines();
+        Integer[] order = new Integer[positions.length];
+        for (int i = 0; i < order.length; i++) {
+            order[i] = i;
+        }
+        java.util.Arrays.sort(order, (a, b) -> Double.compare(positions[a], positions[b]) != 0
+                ? Double.compare(positions[a], positions[b]) : Integer.compare(a, b));
+        List<String> repeats = new java.util.ArrayList<>();
+        for (int k = 1, first = order[0]; k < order.length; k++) {
+            if (positions[order[k]] != positions[order[k - 1]]) {
+                first = order[k];
+            } else {
+                repeats.add(file + ":" + fileLines[order[k]] + ": the same position as line " + fileLines[first]);
+            }
+        }
+        if (!repeats.isEmpty()) {
+            throw new OptionException(repeats.size() + " peak(s) repeat another's position:\n  "
+                    + String.join("\n  ", repeats.subList(0, Math.min(repeats.size(), 10)))
+                    + (repeats.size() > 10 ? "\n  and " + (repeats.size() - 10) + " more" : "")
+                    + "\na peak list holds each peak once (a repeated one would count its lines twice)");
+        }
+    }
+
+    /**
+     * Under a k-sigma tolerance every peak needs a positive uncertainty: one of 0 could only match a
+     * line of uncertainty 0 exactly, and one left empty cannot be weighed. Refuses them all, each
+     * named by its file line, instead of leaving them unexplained.
+     */
     private static void refuseZeroUncertainties(PeakFiles.Peaks read, Path file) {
         List<String> bad = new java.util.ArrayList<>();
         double[] uncertainties = read.uncertainties();

@@ -85,7 +85,10 @@ class BoundedMemoryTest {
                     + "# medium: vacuum\nposition,uncertainty,intensity,width,note\n");
             StringBuilder row = new StringBuilder();
             for (int i = 0; i < 1_000_000; i++) {
-                int micro = random.nextInt(300_000_000);     // 400 to 700 nm in steps of 1e-6 nm
+                // 400 to 700 nm in steps of 1e-6 nm, each step once (a peak list holds each peak
+                // once): i times a multiplier prime to 300,000,000, modulo it, visits distinct steps
+                // in a scattered order
+                int micro = (int) ((long) i * 7_919_993L % 300_000_000L);
                 String fraction = Integer.toString(1_000_000 + micro % 1_000_000).substring(1);
                 row.setLength(0);
                 row.append(400 + micro / 1_000_000).append('.').append(fraction).append(",0.002,")

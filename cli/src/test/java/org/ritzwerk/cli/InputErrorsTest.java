@@ -93,6 +93,19 @@ class InputErrorsTest {
         assertEquals(0, CliTest.run("identify", peaks.toString(), "--species", "H", "--tolerance", "0.02 nm").code());
     }
 
+    @Test
+    void aRepeatedPeakIsRefusedWithItsFileLines(@TempDir Path dir) throws IOException {
+        // Three copies of one line gave an offset "from 3 lines" with a sqrt(3) narrower uncertainty.
+        Path peaks = dir.resolve("three.csv");
+        Files.writeString(peaks, "# ritzwerk-peaks 1\n# id: three\n# title: t\n# source: invented\n# provenance: measured\n"
+                + "# version: 1\n# position-unit: nm\n# medium: air\nposition,uncertainty\n656.30,0.01\n486.13,0.01\n"
+                + "656.30,0.01\n656.30,0.01\n");
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I", "--search-offset", "0.5");
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().contains("2 peak(s) repeat another's position:\n  " + peaks + ":12: the same position as "
+                + "line 10\n  " + peaks + ":13: the same position as line 10\n"), run.err());
+    }
+
     /**
      * Found by a second review: input that reached an engine precondition (exit 1) or was taken
      * twice. A continuum that is zero on the grid, a level list whose label and J column disagree

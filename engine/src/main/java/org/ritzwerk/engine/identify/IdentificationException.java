@@ -19,6 +19,8 @@ public final class IdentificationException extends RitzwerkException {
     public static final String NO_WINDOW = "identify.no-window";
     /** Code: no peak lies within the shift search's range of any line. */
     public static final String NO_PAIRS = "identify.no-pairs";
+    /** Code: two peaks lie at the same position (a peak list holds each peak once). */
+    public static final String REPEATED_PEAK = "identify.repeated-peak";
 
     /**
      * @param code    one of the codes above

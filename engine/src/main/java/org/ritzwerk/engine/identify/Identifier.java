@@ -175,7 +175,8 @@ public final class Identifier {
      * @param lines the candidate lines
      * @return the identification of every peak, in the peaks' order
      * @throws IdentificationException when a k-sigma tolerance meets peaks and lines that both
-     *                                  lack uncertainties (the window would be empty)
+     *                                  lack uncertainties (the window would be empty), or two
+     *                                  peaks lie at the same position
      */
     public Identification identify(PeakList peaks, LineCatalog lines) {
         double[] pw = peaks.wavelengths();
@@ -191,6 +192,7 @@ public final class Identifier {
             results = new Results(peaks.size(), lines.size());
             run(peaks, lines, order, results, 0, peaks.size(), none);
         }
+        refuseRepeatedPositions(pw, order);
         IntensityTerm term = IntensityTerm.from(peaks, lines, results.linePlusOne, intensityWeight);
         if (term != IntensityTerm.NONE) {
             results = new Results(peaks.size(), lines.size());
@@ -259,6 +261,7 @@ public final class Identifier {
      * @param lines the candidate lines
      * @param parts how many parts to aim for (e.g. the number of cores), at least 1
      * @return the identification, equal to {@link #identify}'s
+     * @throws IdentificationException as {@link #identify}
      */
     public Identification identifyInParallel(PeakList peaks, LineCatalog lines, int parts) {
         if (parts < 1) {
@@ -269,6 +272,7 @@ public final class Identifier {
         double[] ps = peaks.sigmas();
         int n = peaks.size();
         int[] order = sortedOrder(pw);
+        refuseRepeatedPositions(pw, order);
         List<Integer> cuts = new ArrayList<>();
         cuts.add(0);
         for (int part = 1; part < parts; part++) {
@@ -1169,6 +1173,24 @@ public final class Identifier {
             if (!anyPositive(peaks.sigmas())) {
                 throw new IdentificationException(IdentificationException.NO_WINDOW, "a k-sigma tolerance needs uncertainties, but neither the peaks nor "
                         + "the lines have any; give them, or use an absolute or relative tolerance");
+            }
+        }
+    }
+
+    /**
+     * @param pw    the peaks' positions
+     * @param order the permutation sorting them, or null when they are sorted
+     * @throws IdentificationException naming the first two peaks (in sorted order) at one position
+     */
+    private static void refuseRepeatedPositions(double[] pw, int[] order) {
+        for (int k = 1; k < pw.length; k++) {
+            int a = order == null ? k - 1 : order[k - 1];
+            int b = order == null ? k : order[k];
+            if (pw[a] == pw[b]) {
+                throw new IdentificationException(IdentificationException.REPEATED_PEAK, String.format(Locale.ROOT,
+                        "peaks %d and %d (in the order given) lie at the same position, %.9g nm in vacuum: a peak "
+                        + "list holds each peak once, and a repeated one would count its lines twice",
+                        Math.min(a, b) + 1, Math.max(a, b) + 1, pw[a] * 1e9));
             }
         }
     }

@@ -43,12 +43,12 @@ class AssignmentOptimalityTest {
                         }
                     }
                     LineCatalog lines = builder.build();
-                    double[] positions = new double[peakOffsets.size()];
-                    double[] sigmas = new double[peakOffsets.size()];
-                    for (int i = 0; i < positions.length; i++) {
-                        positions[i] = 500e-9 + peakOffsets.get(i) * 1e-12;
-                        sigmas[i] = 0.4e-12;
-                    }
+                    // a peak list holds each peak once (the identifier refuses repeats): offsets that
+                    // land on one double are taken once
+                    double[] positions = peakOffsets.stream().mapToDouble(d -> 500e-9 + d * 1e-12).distinct()
+                            .toArray();
+                    double[] sigmas = new double[positions.length];
+                    java.util.Arrays.fill(sigmas, 0.4e-12);
                     PeakList peaks = PeakList.ofVacuumMetres(positions, sigmas);
                     Identification result = Identifier.of(tolerance).identify(peaks, lines);
                     int matches = 0;

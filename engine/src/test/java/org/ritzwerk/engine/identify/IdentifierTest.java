@@ -314,4 +314,32 @@ class IdentifierTest {
         assertEquals("a line catalog needs at least one line",
                 assertThrows(IllegalArgumentException.class, () -> LineCatalog.builder().build()).getMessage());
     }
+
+    @Test
+    void aRepeatedPeakIsRefusedNotCountedTwice() {
+        // Three copies of one peak were all matched to H-alpha and gave an offset "from 3 lines"
+        // with its uncertainty narrowed by sqrt(3). Sorted or not, serial or parallel: refused,
+        // naming the first two peaks at the position in the order given.
+        double[] sorted = {486.135e-9, 656.28e-9, 656.28e-9, 656.28e-9};
+        double[] unsorted = {656.28e-9, 486.135e-9, 700e-9, 656.28e-9};
+        double[] sigmas = {1e-12, 1e-12, 1e-12, 1e-12};
+        Identifier identifier = Identifier.of(Tolerance.kSigma(5));
+        for (double[] positions : List.of(sorted, unsorted)) {
+            PeakList peaks = PeakList.ofVacuumMetres(positions, sigmas);
+            String expected = positions == sorted ? "peaks 2 and 3" : "peaks 1 and 4";
+            IdentificationException serial = assertThrows(IdentificationException.class,
+                    () -> identifier.identify(peaks, LINES));
+            assertEquals(IdentificationException.REPEATED_PEAK, serial.code());
+            assertTrue(serial.getMessage().startsWith(expected + " (in the order given) lie at the same position, "
+                    + "656.280000 nm in vacuum"), serial.getMessage());
+            assertEquals(serial.getMessage(), assertThrows(IdentificationException.class,
+                    () -> identifier.identifyInParallel(peaks, LINES, 2)).getMessage());
+        }
+        // a hair apart they are two peaks
+        PeakList close = PeakList.ofVacuumMetres(new double[] {656.28e-9, Math.nextUp(656.28e-9)}, new double[] {
+            1e-12, 1e-12});
+        Identification two = identifier.identify(close, LINES);
+        assertEquals(2, two.count(Identification.MATCHED) + two.count(Identification.AMBIGUOUS)
+                + two.count(Identification.UNEXPLAINED));
+    }
 }
