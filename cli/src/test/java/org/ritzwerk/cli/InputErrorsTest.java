@@ -97,8 +97,9 @@ class InputErrorsTest {
     void aRepeatedPeakIsRefusedWithItsFileLines(@TempDir Path dir) throws IOException {
         // Three copies of one line gave an offset "from 3 lines" with a sqrt(3) narrower uncertainty.
         Path peaks = dir.resolve("three.csv");
-        Files.writeString(peaks, "# ritzwerk-peaks 1\n# id: three\n# title: t\n# source: invented\n# provenance: measured\n"
-                + "# version: 1\n# position-unit: nm\n# medium: air\nposition,uncertainty\n656.30,0.01\n486.13,0.01\n"
+        Files.writeString(peaks, "# ritzwerk-peaks 1\n# id: three\n# title: t\n# source: invented\n"
+                + "# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: air\n"
+                + "position,uncertainty\n656.30,0.01\n486.13,0.01\n"
                 + "656.30,0.01\n656.30,0.01\n");
         CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I", "--search-offset", "0.5");
         assertEquals(2, run.code(), run.err());
