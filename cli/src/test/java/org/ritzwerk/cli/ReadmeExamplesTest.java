@@ -152,7 +152,8 @@ class ReadmeExamplesTest {
             "./ritzwerk calibrate sample.csv --apply calibration.json --out sample-nm.csv",
             "./ritzwerk lines --species \"H I\" --from \"121 nm\" --to \"122 nm\" --data my-isotopes.csv",
             "./ritzwerk series rb87-series.csv --predict 60",
-            "./ritzwerk fit-levels ca-ii-lines.csv --reference \"4s 2S1/2\" --species \"Ca II\" --levels-out ca-ii-fit.csv");
+            "./ritzwerk fit-levels ca-ii-lines.csv --reference \"4s 2S1/2\" --species \"Ca II\" "
+                    + "--levels-out ca-ii-fit.csv");
 
     /** The README's example inputs, shipped in the repository for users to run the examples on. */
     static final Path EXAMPLE_DATA = Path.of("..", "examples", "data");
