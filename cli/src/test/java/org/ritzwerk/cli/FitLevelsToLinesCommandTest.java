@@ -64,6 +64,10 @@ class FitLevelsToLinesCommandTest {
                     "--species", "Ca II", "--levels-out", levels.toString());
             assertEquals(0, fit.code(), fit.err());
             LevelList list = LevelListFiles.read(levels);
+            CliTest.Run check = CliTest.run("data", "check", levels.toString());
+            assertEquals(0, check.code(), check.err());
+            assertTrue(check.out().contains(": ok, 8 levels of 1 species in cm-1, 21 correlated pairs (id ca-ii-fit)"),
+                    check.out());
             assertEquals("ca-ii-fit", list.info().id());
             assertEquals(LABELS.length, list.size());
             // the held level is exact and correlates with nothing; every other pair of levels is correlated

@@ -213,6 +213,10 @@ public final class LevelListFiles {
         int before = p.problems.size();
         Map<Long, TabularFiles.Row> pairs = new HashMap<>();
         Map<Long, Double> values = new HashMap<>();
+        double[] uncertainty = new double[levelRows.size()];   // each level's, read once (NaN: none)
+        for (int i = 0; i < uncertainty.length; i++) {
+            uncertainty[i] = p.number(levelRows.get(i), "uncertainty", false);
+        }
         List<int[]> given = new ArrayList<>();
         List<TabularFiles.Row> givenRows = new ArrayList<>();
         List<Double> givenValues = new ArrayList<>();
@@ -255,7 +259,7 @@ public final class LevelListFiles {
             for (int k = 0; k < 2; k++) {
                 Object u = levelRows.get(level[k]).values().get("uncertainty");
                 TabularFiles.Row levelRow = levelRows.get(level[k]);
-                double sigma = p.number(levelRow, "uncertainty", false);
+                double sigma = uncertainty[level[k]];
                 if (!(sigma > 0)) {
                     c.rowProblem(row, columns[k], "data.bad-correlation", "level '" + levelRow.values().get("label")
                             + "' (line " + levelRow.line() + ") has " + (u == null ? "no uncertainty" : "uncertainty 0")
@@ -311,7 +315,7 @@ public final class LevelListFiles {
             double[] sigma = new double[rows.size()];
             for (int k = 0; k < rows.size(); k++) {
                 place.put(rows.get(k), k);
-                sigma[k] = p.number(levelRows.get(rows.get(k)), "uncertainty", false);
+                sigma[k] = uncertainty[rows.get(k)];
             }
             double[][] v = new double[rows.size()][rows.size()];
             for (int k = 0; k < rows.size(); k++) {

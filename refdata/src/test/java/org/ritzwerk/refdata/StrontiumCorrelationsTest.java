@@ -56,6 +56,18 @@ class StrontiumCorrelationsTest {
                     && list.label(list.correlationOtherRow(k)).startsWith("5s."));
         }
         assertTrue(LEVELS.hasCovariance());
+        // the provider lists the set from its levels alone and reads the correlations on first load: same info
+        org.ritzwerk.refdata.internal.LevelProvider provider = new org.ritzwerk.refdata.internal.LevelProvider();
+        DataSetInfoCheck.same(provider.dataSets().stream().filter(i -> i.id().equals("levels-sr-i")).findFirst()
+                .orElseThrow(), provider.load("levels-sr-i").info());
+        assertEquals(list, provider.load("levels-sr-i"));
+    }
+
+    /** Listing and loading agree on what the set is. */
+    private static final class DataSetInfoCheck {
+        static void same(org.ritzwerk.data.DataSetInfo listed, org.ritzwerk.data.DataSetInfo loaded) {
+            assertEquals(listed, loaded);
+        }
     }
 
     @Test

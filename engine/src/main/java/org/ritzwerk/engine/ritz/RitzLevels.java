@@ -245,7 +245,7 @@ public final class RitzLevels {
             maxDiagonal = Math.max(maxDiagonal, cm2[i][i]);
         }
         double tol = 1e-10 * n * maxDiagonal;
-        if (n == 0 || smallestEigenvalue(cm2, n) >= -tol) {
+        if (n == 0 || shiftedCholeskySucceeds(cm2, tol) || smallestEigenvalue(cm2, n) >= -tol) {
             return -1;
         }
         int lo = 1;
@@ -259,6 +259,40 @@ public final class RitzLevels {
             }
         }
         return lo - 1;
+    }
+
+    /**
+     * The fast way to the common answer: the Cholesky decomposition of {@code V + tol I} succeeds (every
+     * pivot above 0) exactly when every eigenvalue of V lies above {@code -tol} (common practice: a
+     * symmetric matrix is positive definite if and only if it has a Cholesky factor; the factorisation
+     * is backward stable, its rounding of order n eps max V_ii far below tol). When it fails, the
+     * eigenvalues decide (a matrix on the boundary, or one to report).
+     *
+     * @return whether V + tol I has a Cholesky factor (symmetrised from the lower triangle)
+     */
+    private static boolean shiftedCholeskySucceeds(double[][] v, double tol) {
+        int n = v.length;
+        double[][] l = new double[n][];
+        for (int i = 0; i < n; i++) {
+            l[i] = new double[i + 1];
+            for (int j = 0; j <= i; j++) {
+                double sum = 0.5 * (v[i][j] + v[j][i]) + (i == j ? tol : 0);
+                double[] li = l[i];
+                double[] lj = l[j];
+                for (int k = 0; k < j; k++) {
+                    sum -= li[k] * lj[k];
+                }
+                if (i == j) {
+                    if (!(sum > 0)) {
+                        return false;
+                    }
+                    li[i] = Math.sqrt(sum);
+                } else {
+                    li[j] = sum / lj[j];
+                }
+            }
+        }
+        return true;
     }
 
     /** @return the smallest eigenvalue of the leading m by m block of the (symmetric within rounding) v */
