@@ -237,7 +237,8 @@ final class DataCommand implements Callable<Integer> {
                         LevelList levels = (LevelList) set;
                         org.ritzwerk.refdata.DataLines.checkLevels(levels);
                         what = levels.size() + " levels of " + levels.info().species().size() + " species in "
-                                + levels.unit().symbol();
+                                + levels.unit().symbol() + (levels.correlationCount() == 0 ? ""
+                                        : ", " + levels.correlationCount() + " correlated pairs");
                     } else if (set instanceof QuantumDefects) {
                         QuantumDefects defects = (QuantumDefects) set;
                         what = defects.size() + " quantum-defect series of " + defects.species().notation();

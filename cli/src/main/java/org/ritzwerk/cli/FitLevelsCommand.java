@@ -6,6 +6,12 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
+import org.ritzwerk.RitzwerkException;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.LevelList;
+import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.ritz.LevelOptimizer;
 import org.ritzwerk.engine.ritz.LevelOptimum;
 import org.ritzwerk.engine.ritz.MeasuredLines;
@@ -16,6 +22,7 @@ import org.ritzwerk.quantity.SpectralQuantity;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.quantity.Wavelength;
 import org.ritzwerk.quantity.Wavenumber;
+import org.ritzwerk.refdata.LevelListFiles;
 import org.ritzwerk.refdata.MeasuredLineFiles;
 import org.ritzwerk.refdata.OutputFiles;
 import picocli.CommandLine.Command;
@@ -38,7 +45,8 @@ import picocli.CommandLine.Spec;
                 + "another, each with its header row.",
         footer = {"", "Examples:",
             "  ritzwerk fit-levels lines.csv --reference \"1s2s 3S1\" --reference-energy \"159855.9743 cm-1\"",
-            "  ritzwerk fit-levels lines.csv --reference \"1s2 1S0\" --medium air --format json --out fit.json"})
+            "  ritzwerk fit-levels lines.csv --reference \"1s2 1S0\" --medium air --format json --out fit.json",
+            "  ritzwerk fit-levels lines.csv --reference \"4s 2S1/2\" --species \"Ca II\" --levels-out ca-ii.csv"})
 final class FitLevelsCommand implements Callable<Integer> {
 
     @Spec
@@ -74,6 +82,16 @@ final class FitLevelsCommand implements Callable<Integer> {
             description = "Write the result here (a temporary file renamed into place) instead of to the output.")
     Path out;
 
+    @Option(names = "--levels-out", paramLabel = "FILE",
+            description = "Also write the fitted levels with their correlations as a ritzwerk-levels file (.json: "
+                    + "JSON, else CSV; a temporary file renamed into place), for --data of lines, identify and the "
+                    + "other commands. Needs --species.")
+    Path levelsOut;
+
+    @Option(names = "--species", paramLabel = "SPECIES",
+            description = "The species of the levels in --levels-out, e.g. \"Ca II\".")
+    String species;
+
     @Override
     public Integer call() throws IOException {
         if (!(threshold > 0) || Double.isInfinite(threshold)) {
@@ -84,9 +102,10 @@ final class FitLevelsCommand implements Callable<Integer> {
         }
         Medium shown = AxisMedium.of(medium);
         double referencePerCm = referencePerCm();
-        if (out != null) {
-            OutputFiles.check(List.of(new OutputFiles.Named("--out", out)),
-                    List.of(new OutputFiles.Named("FILE", file)));
+        Species levelSpecies = levelSpecies();
+        if (out != null || levelsOut != null) {
+            OutputFiles.check(List.of(new OutputFiles.Named("--out", out),
+                    new OutputFiles.Named("--levels-out", levelsOut)), List.of(new OutputFiles.Named("FILE", file)));
         }
         MeasuredLineFiles.Contents contents = MeasuredLineFiles.read(file);
         MeasuredLines problem = contents.problem(reference, referencePerCm);
@@ -104,6 +123,17 @@ final class FitLevelsCommand implements Callable<Integer> {
         } catch (RitzException e) {
             throw new RitzException(e.code(), file + ": " + e.getMessage());
         }
+        if (levelsOut != null) {
+            String levels;
+            try {
+                LevelList list = fit.levels(levelSpecies).toLevelList(levelListInfo(levelSpecies, fit));
+                levels = levelsOut.toString().toLowerCase(Locale.ROOT).endsWith(".json")
+                        ? LevelListFiles.writeJson(list) : LevelListFiles.writeCsv(list);
+            } catch (RitzException e) {
+                throw new RitzException(e.code(), "--levels-out: " + e.getMessage());
+            }
+            OutputFiles.writeString(levelsOut, levels);
+        }
         if (out == null) {
             PrintWriter writer = spec.commandLine().getOut();
             print(fit, shown, writer);
@@ -116,6 +146,49 @@ final class FitLevelsCommand implements Callable<Integer> {
             });
         }
         return 0;
+    }
+
+    /** @return the species of --levels-out, null without it; --species alone is refused */
+    private Species levelSpecies() {
+        if (levelsOut == null) {
+            if (species != null) {
+                throw new OptionException("--species names the species of --levels-out; give --levels-out FILE too");
+            }
+            return null;
+        }
+        if (species == null || species.isBlank()) {
+            throw new OptionException("--levels-out needs --species, the species of the levels (e.g. \"Ca II\")");
+        }
+        try {
+            return Species.parse(species);
+        } catch (RitzwerkException e) {
+            throw new OptionException("--species: " + e.getMessage());
+        }
+    }
+
+    /**
+     * What the written level list is: its id from the file name (lower case; other characters than
+     * letters, digits, dots and dashes become dashes), computed by this command from the measured
+     * lines, with the fit's settings and chi2 as its version.
+     */
+    private DataSetInfo levelListInfo(Species s, LevelOptimum fit) {
+        String name = levelsOut.getFileName().toString();
+        int dot = name.lastIndexOf('.');
+        String id = (dot > 0 ? name.substring(0, dot) : name).toLowerCase(Locale.ROOT).replaceAll("[^a-z0-9.-]", "-")
+                .replaceAll("^[^a-z0-9]+", "");
+        if (!DataSetInfo.isValidId(id)) {
+            id = "fitted-levels";
+        }
+        MeasuredLines problem = fit.problem();
+        String version = String.format(Locale.ROOT, "reference '%s' held at %s cm-1; threshold %s; %d of %d lines; "
+                + "chi2 %.6g for %d degrees of freedom", problem.reference(), problem.referencePerCm(),
+                fit.outlierThreshold(), problem.size() - fit.leftOut().size(), problem.size(), fit.chiSquare(),
+                fit.degreesOfFreedom());
+        return new DataSetInfo(id, DataKind.LEVELS,
+                s.notation() + " levels fitted to the lines of " + file.getFileName(),
+                version, Provenance.computedBy("ritzwerk fit-levels from " + file.getFileName()
+                        + " (weighted least squares of the level energies; correlations from their covariance)"),
+                List.of(s));
     }
 
     /** @return --reference-energy in cm^-1, refusing wavelengths and values below 0 */

@@ -151,7 +151,9 @@ class ReadmeExamplesTest {
             "./ritzwerk identify plasma-peaks.csv --species \"H I\" --n-max 9 --plasma --resolving-power 5000",
             "./ritzwerk calibrate sample.csv --apply calibration.json --out sample-nm.csv",
             "./ritzwerk lines --species \"H I\" --from \"121 nm\" --to \"122 nm\" --data my-isotopes.csv",
-            "./ritzwerk series rb87-series.csv --predict 60");
+            "./ritzwerk series rb87-series.csv --predict 60",
+            "./ritzwerk fit-levels ca-ii-lines.csv --reference \"4s 2S1/2\" --species \"Ca II\" "
+                    + "--levels-out ca-ii-fit.csv");
 
     /** The README's example inputs, shipped in the repository for users to run the examples on. */
     static final Path EXAMPLE_DATA = Path.of("..", "examples", "data");
@@ -163,7 +165,7 @@ class ReadmeExamplesTest {
      * plasma example's peaks are synth's truth at 12,000 K and 2e22 m^-3 (counts to six
      * significant digits as intensity, as a measurement would give them, and the Voigt width with
      * the instrument's lambda / R); the series file is the one the cli tests use (members computed
-     * from the built-in Rb-87 defects).
+     * from the built-in Rb-87 defects); the Ca II network is {@link FitLevelsToLinesCommandTest}'s, seed 2121.
      */
     @Test
     void theShippedExampleInputsAreWhatTheirGeneratorsGive(@TempDir Path dir) throws IOException {
@@ -191,6 +193,10 @@ class ReadmeExamplesTest {
                 "examples/data/plasma-peaks.csv (the generated one is in cli/target/plasma-peaks.generated.csv)");
         assertEquals(Files.readString(Path.of("src", "test", "resources", "org", "ritzwerk", "cli", "series-rb-87.csv")),
                 Files.readString(EXAMPLE_DATA.resolve("rb87-series.csv")));
+        String network = Files.readString(FitLevelsToLinesCommandTest.measured(dir, 2121));
+        Files.writeString(Path.of("target", "ca-ii-lines.generated.csv"), network, StandardCharsets.UTF_8);
+        assertEquals(network, Files.readString(EXAMPLE_DATA.resolve("ca-ii-lines.csv")),
+                "examples/data/ca-ii-lines.csv (the generated one is in cli/target/ca-ii-lines.generated.csv)");
     }
 
     /**
@@ -212,6 +218,8 @@ class ReadmeExamplesTest {
                     "--pixels", "4096", "--medium", "air", "--temperature", "300", "--resolving-power", "2000",
                     "--read-noise", "5", "--seed", "22", "--out", dir.resolve("sample.csv").toString());
             assertEquals(0, synth.code(), synth.err());
+        } else if (command.contains("ca-ii-lines.csv")) {
+            Files.copy(EXAMPLE_DATA.resolve("ca-ii-lines.csv"), dir.resolve("ca-ii-lines.csv"));
         } else if (command.contains("rb87-series.csv")) {
             Files.copy(EXAMPLE_DATA.resolve("rb87-series.csv"), dir.resolve("rb87-series.csv"));
         } else {

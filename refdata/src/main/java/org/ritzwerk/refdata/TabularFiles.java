@@ -131,7 +131,7 @@ final class TabularFiles {
         final String source;
         private final String text;
         /** Where each line starts in the text (4 bytes a line, no string a line). */
-        private final int[] lineStarts;
+        final int[] lineStarts;
         private final int lineCount;
         final Map<String, String> header = new LinkedHashMap<>();
         final Map<String, Integer> headerLine = new HashMap<>();
@@ -549,6 +549,59 @@ final class TabularFiles {
     }
 
     /**
+     * Where a CSV file's second table starts: the first line that reads {@code # <marker>} (spaces
+     * around either part ignored), after which come its row of column names and its rows.
+     *
+     * @param text   the whole file
+     * @param marker the section's name, e.g. {@code correlations}
+     * @return the 1-based line of the marker, or -1 when the file has none
+     */
+    static int sectionLine(String text, String marker) {
+        Parsed lines = new Parsed(null, "", text, null);
+        for (int l = 1; l <= lines.lineCount(); l++) {
+            String stripped = lines.raw(l).strip();
+            if (stripped.startsWith("#") && stripped.substring(1).strip().equals(marker)) {
+                return l;
+            }
+        }
+        return -1;
+    }
+
+    /**
+     * @param text a CSV file's text
+     * @param line a 1-based line
+     * @return the text before that line (the lines before it keep their numbers)
+     */
+    static String before(String text, int line) {
+        Parsed lines = new Parsed(null, "", text, null);
+        return text.substring(0, lines.lineStarts[line - 1]);
+    }
+
+    /**
+     * Reads the second table of a CSV file, after its marker line ({@link #sectionLine}): a row of
+     * column names, then rows, with the lines numbered as in the whole file. The spec's header keys
+     * are not read (the file's header is the first table's).
+     *
+     * @param spec       the section's columns (its format and version are the file's)
+     * @param text       the whole file
+     * @param source     file name for messages
+     * @param markerLine the marker's line
+     * @return the rows and problems
+     */
+    static Parsed parseCsvSection(Spec spec, String text, String source, int markerLine) {
+        Parsed p = new Parsed(spec, source, text, null);
+        // the lines up to the marker become empty lines, so the parser's line numbers stay the file's
+        String rest = "\n".repeat(markerLine) + (markerLine < p.lineCount() ? text.substring(p.lineStarts[markerLine])
+                : "");
+        try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(rest)) {
+            readRows(p, iterator, markerLine);
+        } catch (JacksonException e) {
+            csvSyntax(p, e);
+        }
+        return p;
+    }
+
+    /**
      * Reads a CSV file as it streams from the disk, for files beyond {@link #MAX_BYTES} and
      * {@link #MAX_ROWS} (a line list of millions of lines): the header as
      * {@link #parseCsv(Spec, String, String, RowSink)} reads it, then each row handed to the sink
@@ -841,10 +894,24 @@ final class TabularFiles {
      *             the rows in {@link Parsed#rows}
      */
     static Parsed parseJson(Spec spec, String text, String source, RowSink sink) {
+        return parseJson(spec, text, source, sink, null);
+    }
+
+    /**
+     * @param section a second table's rows, read from its own array key ({@link Spec#arrayKey()} of
+     *                the section's spec), or null when the format has none; its problems stay in it
+     */
+    static Parsed parseJson(Spec spec, String text, String source, RowSink sink, Parsed section) {
         Parsed p = new Parsed(spec, source, text, sink);
         List<String> jsonKeys = new ArrayList<>(List.of("format", "formatVersion"));
         spec.headerKeys().forEach(key -> jsonKeys.add(spec.jsonKey(key)));
         jsonKeys.add(spec.arrayKey());
+        if (section != null) {
+            jsonKeys.add(section.spec.arrayKey());
+            Map<String, Integer> sectionIndex = new HashMap<>();
+            section.spec.columns().forEach(c -> sectionIndex.put(c, 0));
+            section.columnIndex = sectionIndex;
+        }
         boolean sawRows = false;
         Object format = null;
         Object version = null;
@@ -869,6 +936,21 @@ final class TabularFiles {
                         TokenStreamLocation at = parser.currentTokenLocation();
                         JsonNode node = JSON.readTree(parser);
                         if (!jsonRow(p, node, at.getLineNr(), at.getColumnNr())) {
+                            return p;
+                        }
+                    }
+                    continue;
+                }
+                if (section != null && name.equals(section.spec.arrayKey())) {
+                    if (parser.currentToken() != JsonToken.START_ARRAY) {
+                        p.problem(line, 0, "data.json-shape", "'" + name + "' must be an array", "");
+                        parser.skipChildren();
+                        continue;
+                    }
+                    while (parser.nextToken() != JsonToken.END_ARRAY) {
+                        TokenStreamLocation at = parser.currentTokenLocation();
+                        JsonNode node = JSON.readTree(parser);
+                        if (!jsonRow(section, node, at.getLineNr(), at.getColumnNr())) {
                             return p;
                         }
                     }
@@ -987,13 +1069,41 @@ final class TabularFiles {
     }
 
     static String writeJson(Spec spec, Map<String, String> header, List<ObjectNode> rows) {
+        return writeJson(spec, header, rows, null, List.of());
+    }
+
+    /**
+     * @param section     the spec of a second table, written under its array key when it has rows
+     * @param sectionRows its rows (none: no key written)
+     */
+    static String writeJson(Spec spec, Map<String, String> header, List<ObjectNode> rows, Spec section,
+            List<ObjectNode> sectionRows) {
         ObjectNode root = JSON.createObjectNode();
         root.put("format", spec.format());
         root.put("formatVersion", spec.version());
         header.forEach((key, value) -> root.put(spec.jsonKey(key), value));
         ArrayNode array = root.putArray(spec.arrayKey());
         rows.forEach(array::add);
+        if (section != null && !sectionRows.isEmpty()) {
+            ArrayNode more = root.putArray(section.arrayKey());
+            sectionRows.forEach(more::add);
+        }
         return JSON.writerWithDefaultPrettyPrinter().writeValueAsString(root) + "\n";
+    }
+
+    /**
+     * @param marker the section's name, written as the line {@code # <marker>}
+     * @param spec   the section's columns
+     * @param rows   its rows
+     * @return the second table of a CSV file, to follow the first
+     */
+    static String writeCsvSection(String marker, Spec spec, List<String[]> rows) {
+        List<String[]> all = new ArrayList<>();
+        all.add(spec.columns().toArray(new String[0]));
+        all.addAll(rows);
+        StringWriter out = new StringWriter();
+        CSV.writer(CsvSchema.emptySchema().withLineSeparator("\n")).writeValues(out).writeAll(all).close();
+        return "# " + marker + "\n" + out;
     }
 
     static ObjectNode newRow() {

@@ -79,8 +79,11 @@ public final class RitzLevels {
         double[] factor = {1.0};
         SpectralArrays.convert(factor, list.unit(), null, Unit.PER_CENTIMETRE, null, factor);
         Builder b = builder(species).info(list.info());
+        int[] place = new int[list.size()];
         for (int i = 0; i < list.size(); i++) {
+            place[i] = -1;
             if (list.species(i).equals(species)) {
+                place[i] = b.labels.size();
                 OptionalDouble u = list.uncertainty(i);
                 b.add(list.label(i), list.energy(i) * factor[0], u.isPresent() ? u.getAsDouble() * factor[0] : Double.NaN,
                         list.twoJ(i));
@@ -89,6 +92,59 @@ public final class RitzLevels {
         if (b.labels.isEmpty()) {
             throw new IllegalArgumentException("level list " + list.info().id() + " has no level of "
                     + species.notation());
+        }
+        RitzLevels levels = b.build();
+        double[][] v = null;
+        for (int k = 0; k < list.correlationCount(); k++) {
+            int i = place[list.correlationRow(k)];
+            int j = place[list.correlationOtherRow(k)];
+            if (i < 0) {
+                continue;
+            }
+            if (v == null) {
+                v = levels.diagonalCovariance();
+            }
+            v[i][j] = list.correlation(k) * levels.sigma[i] * levels.sigma[j];
+            v[j][i] = v[i][j];
+        }
+        return v == null ? levels : levels.withCovariance(v);
+    }
+
+    /** @return the variances on the diagonal, 0 elsewhere, cm^-2 */
+    private double[][] diagonalCovariance() {
+        double[][] v = new double[size()][size()];
+        for (int i = 0; i < v.length; i++) {
+            v[i][i] = sigma[i] * sigma[i];
+        }
+        return v;
+    }
+
+    /**
+     * These levels as a level list of one species in cm^-1: each level's energy and standard
+     * uncertainty, and, where a covariance is given, the correlation coefficient
+     * {@code r_ij = V_ij / (u_i u_j)} of every pair with a covariance other than 0 and both
+     * uncertainties above 0 ({@link LevelList#correlate}), so that the list gives the covariance back
+     * within rounding (a few units in the last place of each entry).
+     *
+     * @param set what the list is (kind levels); its species should be this set's
+     * @return the level list, j where the label gives it, no notes
+     * @throws IllegalArgumentException when a level has no uncertainty while a covariance is given
+     *                                  (cannot happen: {@link #withCovariance} sets every one)
+     */
+    public LevelList toLevelList(DataSetInfo set) {
+        LevelList.Builder b = LevelList.builder(set, Unit.PER_CENTIMETRE, "");
+        for (int i = 0; i < size(); i++) {
+            b.add(species, label[i], energy[i], sigma[i], designation[i].twoJ(), null);
+        }
+        if (covariance != null) {
+            for (int i = 0; i < size(); i++) {
+                for (int j = i + 1; j < size(); j++) {
+                    if (covariance[i][j] != 0 && sigma[i] > 0 && sigma[j] > 0) {
+                        double r = covariance[i][j] / (sigma[i] * sigma[j]);
+                        b.correlate(i, j, Math.max(-1, Math.min(1, r)));
+                    }
+                }
+            }
         }
         return b.build();
     }
@@ -161,24 +217,82 @@ public final class RitzLevels {
                 }
             }
         }
-        if (smallestEigenvalue(copy, n) < -tol) {
-            // leading blocks: once one is indefinite, every larger one is; find the smallest
-            int lo = 1;
-            int hi = n;
-            while (lo < hi) {
-                int mid = (lo + hi) / 2;
-                if (smallestEigenvalue(copy, mid) < -tol) {
-                    hi = mid;
-                } else {
-                    lo = mid + 1;
-                }
-            }
+        int at = firstIndefiniteLevel(copy);
+        if (at >= 0) {
+            int lo = at + 1;
             throw new RitzException(RitzException.BAD_COVARIANCE, String.format(Locale.ROOT,
                     "the covariance is not positive semidefinite: with level '%s' (row %d) the first %d levels "
                     + "have an eigenvalue %s cm-2, below -%s cm-2 (rounding); check its covariances with the "
                     + "levels before it", label[lo - 1], lo, lo, smallestEigenvalue(copy, lo), tol));
         }
         return new RitzLevels(species, info, label, energy, s, designation, copy);
+    }
+
+    /**
+     * Where a symmetric matrix stops being positive semidefinite: the smallest leading block of it
+     * with an eigenvalue below {@code -1e-10 n max_i V_ii} (the rounding tolerance of
+     * {@link #withCovariance}); once a leading block is indefinite every larger one is, so the last
+     * row of that block is the first level whose covariances with the levels before it cannot be.
+     *
+     * @param cm2 a square matrix, symmetric within rounding (cm^-2, or any unit squared)
+     * @return the 0-based index of that level, or -1 when the whole matrix is positive semidefinite
+     *         within the tolerance
+     */
+    public static int firstIndefiniteLevel(double[][] cm2) {
+        int n = cm2.length;
+        double maxDiagonal = 0;
+        for (int i = 0; i < n; i++) {
+            maxDiagonal = Math.max(maxDiagonal, cm2[i][i]);
+        }
+        double tol = 1e-10 * n * maxDiagonal;
+        if (n == 0 || shiftedCholeskySucceeds(cm2, tol) || smallestEigenvalue(cm2, n) >= -tol) {
+            return -1;
+        }
+        int lo = 1;
+        int hi = n;
+        while (lo < hi) {
+            int mid = (lo + hi) / 2;
+            if (smallestEigenvalue(cm2, mid) < -tol) {
+                hi = mid;
+            } else {
+                lo = mid + 1;
+            }
+        }
+        return lo - 1;
+    }
+
+    /**
+     * The fast way to the common answer: the Cholesky decomposition of {@code V + tol I} succeeds (every
+     * pivot above 0) exactly when every eigenvalue of V lies above {@code -tol} (common practice: a
+     * symmetric matrix is positive definite if and only if it has a Cholesky factor; the factorisation
+     * is backward stable, its rounding of order n eps max V_ii far below tol). When it fails, the
+     * eigenvalues decide (a matrix on the boundary, or one to report).
+     *
+     * @return whether V + tol I has a Cholesky factor (symmetrised from the lower triangle)
+     */
+    private static boolean shiftedCholeskySucceeds(double[][] v, double tol) {
+        int n = v.length;
+        double[][] l = new double[n][];
+        for (int i = 0; i < n; i++) {
+            l[i] = new double[i + 1];
+            for (int j = 0; j <= i; j++) {
+                double sum = 0.5 * (v[i][j] + v[j][i]) + (i == j ? tol : 0);
+                double[] li = l[i];
+                double[] lj = l[j];
+                for (int k = 0; k < j; k++) {
+                    sum -= li[k] * lj[k];
+                }
+                if (i == j) {
+                    if (!(sum > 0)) {
+                        return false;
+                    }
+                    li[i] = Math.sqrt(sum);
+                } else {
+                    li[j] = sum / lj[j];
+                }
+            }
+        }
+        return true;
     }
 
     /** @return the smallest eigenvalue of the leading m by m block of the (symmetric within rounding) v */

@@ -86,4 +86,56 @@ class RitzLevelsCovarianceTest {
             assertEquals(Math.sqrt(s[n - 1][n - 1]), ok.uncertaintyPerCm(n - 1).getAsDouble(), 0.0);
         }
     }
+
+    @Test
+    void aLevelListCarriesTheCovarianceBackWithinRounding() {
+        // a random positive definite covariance B B^T + 1e-8 I (seeded), through toLevelList's correlations
+        // r_ij = V_ij / (u_i u_j) and back by RitzLevels.of as r_ij u_i u_j: equal within a few ulps
+        // (common practice: each product and quotient rounds once, relative error <= 2^-53 each)
+        Random random = new Random(2121L);
+        int n = 7;
+        double[][] b = new double[n][n];
+        for (double[] row : b) {
+            for (int j = 0; j < n; j++) {
+                row[j] = random.nextGaussian() * 1e-3;
+            }
+        }
+        double[][] v = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            v[i][i] = 1e-8;
+            for (int j = 0; j < n; j++) {
+                for (int k = 0; k < n; k++) {
+                    v[i][j] += b[i][k] * b[j][k];
+                }
+            }
+        }
+        RitzLevels.Builder builder = RitzLevels.builder(Species.parse("Fe I"));
+        for (int i = 0; i < n; i++) {
+            builder.add("3d6 4s" + (i + 4) + "s 5D" + (i % 5), 20000.0 + 1000.0 * i, 0.01, -1);
+        }
+        RitzLevels original = builder.build().withCovariance(v);
+        org.ritzwerk.data.LevelList list = original.toLevelList(new org.ritzwerk.data.DataSetInfo("fit",
+                org.ritzwerk.data.DataKind.LEVELS, "fitted", "1",
+                org.ritzwerk.data.Provenance.computedBy("the test"), java.util.List.of(original.species())));
+        assertEquals(n * (n - 1) / 2, list.correlationCount());
+        RitzLevels back = RitzLevels.of(list, original.species());
+        assertTrue(back.hasCovariance());
+        for (int i = 0; i < n; i++) {
+            assertEquals(original.energyPerCm(i), back.energyPerCm(i), 0.0);
+            for (int j = 0; j < n; j++) {
+                assertEquals(v[i][j], back.covariance(i, j), 1e-15 * Math.sqrt(v[i][i] * v[j][j]), i + "," + j);
+                assertEquals(original.differenceSigma(i, j), back.differenceSigma(i, j),
+                        1e-9 * original.differenceSigma(i, j) + 1e-15, "line " + i + " - " + j);
+            }
+        }
+    }
+
+    @Test
+    void theFirstIndefiniteLevelIsFound() {
+        // [[1, .9, .9], [.9, 1, -.9], [.9, -.9, 1]]: the first two levels are fine (|r| < 1), the third makes the
+        // determinant 1 - 3 (0.81) - 2 (0.729) < 0 (closed form)
+        assertEquals(2, RitzLevels.firstIndefiniteLevel(new double[][] {{1, .9, .9}, {.9, 1, -.9}, {.9, -.9, 1}}));
+        assertEquals(-1, RitzLevels.firstIndefiniteLevel(new double[][] {{1, .9, .9}, {.9, 1, .9}, {.9, .9, 1}}));
+        assertEquals(-1, RitzLevels.firstIndefiniteLevel(new double[0][0]));
+    }
 }
