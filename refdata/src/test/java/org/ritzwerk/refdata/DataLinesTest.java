@@ -39,7 +39,8 @@ class DataLinesTest {
         }
         // Cs D2 and D1 at 852.35 and 894.59 nm in vacuum (NIST ASD Cs I, from memory): 0.01 nm.
         LineSet cs = LineQuery.defaults().withMaxN(6).withMaxL(1).withSpecies(List.of(Species.parse("Cs I")))
-                .withWindow(Wavelength.ofNanometres(800, Medium.vacuum()), Wavelength.ofNanometres(900, Medium.vacuum()))
+                .withWindow(Wavelength.ofNanometres(800, Medium.vacuum()),
+                        Wavelength.ofNanometres(900, Medium.vacuum()))
                 .run(DataLines.sources(data, List.of(Species.parse("Cs I")), Tier.QED));
         assertEquals(2, cs.size());
         assertEquals(852.35, cs.vacuumWavelengthNm(0), 0.01);

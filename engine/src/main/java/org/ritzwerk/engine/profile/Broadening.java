@@ -47,11 +47,12 @@ public final class Broadening {
         positive("temperature", temperature, "K");
         positive("emitter mass", mass, "kg");
         if (mass > MAX_EMITTER_MASS_KG || mass < MIN_EMITTER_MASS_KG) {
+            double u = PhysicalConstants.ATOMIC_MASS_CONSTANT.value();
             throw new IllegalArgumentException("emitter mass must be " + MIN_EMITTER_MASS_KG + " (an electron) to "
-                    + MAX_EMITTER_MASS_KG + " kg (far above any atom), got " + mass + " kg" + (mass > MAX_EMITTER_MASS_KG
-                    ? "; a mass in u? multiply it by the atomic mass constant, " + PhysicalConstants.ATOMIC_MASS_CONSTANT
-                            .value() + " kg (" + mass + " u = " + String.format(java.util.Locale.ROOT, "%.4g",
-                            mass * PhysicalConstants.ATOMIC_MASS_CONSTANT.value()) + " kg)" : ""));
+                    + MAX_EMITTER_MASS_KG + " kg (far above any atom), got " + mass + " kg"
+                    + (mass > MAX_EMITTER_MASS_KG ? "; a mass in u? multiply it by the atomic mass constant, " + u
+                            + " kg (" + mass + " u = " + String.format(java.util.Locale.ROOT, "%.4g", mass * u) + " kg)"
+                            : ""));
         }
         return frequency * Math.sqrt(KELVIN_TO_SQUARED_SPEED * temperature / mass) / PhysicalConstants.C;
     }

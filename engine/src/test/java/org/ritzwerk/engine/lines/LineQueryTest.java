@@ -279,7 +279,8 @@ class LineQueryTest {
         LineSources sources = LineSources.none().withAlkali(Sources.rubidium()).withLineList(Sources.neonInAir());
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> LineQuery.defaults()
                 .withSpecies(List.of(Species.parse("Rb-85 I"), Species.parse("Ne I"), Species.parse("Ar I")))
-                .withWindow(Wavelength.ofNanometres(500, Medium.vacuum()), Wavelength.ofNanometres(900, Medium.vacuum()))
+                .withWindow(Wavelength.ofNanometres(500, Medium.vacuum()),
+                        Wavelength.ofNanometres(900, Medium.vacuum()))
                 .run(sources));
         assertEquals("withSpecies: Rb-85 I, Ar I are offered by none of the sources, which offer [Rb-87 I, Ne I];"
                 + " add a source for it or leave it out of withSpecies", e.getMessage());
