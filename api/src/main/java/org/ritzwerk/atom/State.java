@@ -16,6 +16,7 @@ public record State(int n, int l, int twoJ) {
 
     private static final String LETTERS = "spdfghiklmnoqrtuv";
     private static final Pattern TEXT = Pattern.compile("(\\d{1,9})([a-z])(\\d{1,3})/2");
+    private static final Pattern NO_J = Pattern.compile("\\d{1,9}[spdfghiklmnoqrtuv]");
 
     /**
      * Validates the quantum numbers.
@@ -50,16 +51,25 @@ public record State(int n, int l, int twoJ) {
     /**
      * @param text the form {@link #label()} writes, e.g. {@code 5s1/2}, {@code 43d5/2}, {@code 60p3/2}
      * @return the state
-     * @throws IllegalArgumentException when the text has another form or impossible quantum numbers
+     * @throws StateParseException ({@link StateParseException#MALFORMED}) when the text has another
+     *         form, ({@link StateParseException#IMPOSSIBLE}) for impossible quantum numbers; the
+     *         message names the text and what is wrong
      */
     public static State parse(String text) {
-        Matcher m = TEXT.matcher(java.util.Objects.requireNonNull(text, "text").strip().toLowerCase(Locale.ROOT));
+        String input = java.util.Objects.requireNonNull(text, "text").strip();
+        Matcher m = TEXT.matcher(input.toLowerCase(Locale.ROOT));
         if (!m.matches() || LETTERS.indexOf(m.group(2).charAt(0)) < 0) {
-            throw new IllegalArgumentException("cannot read state '" + text + "'; expected n, the letter of l and j, "
-                    + "e.g. 5s1/2, 43d5/2, 60p3/2");
+            String hint = NO_J.matcher(input.toLowerCase(Locale.ROOT)).matches() ? "j is missing (write e.g. "
+                    + input + (input.toLowerCase(Locale.ROOT).endsWith("s") ? "1/2" : "3/2") + "); " : "";
+            throw new StateParseException(StateParseException.MALFORMED, input, hint
+                    + "expected n, the letter of l and j, e.g. 5s1/2, 43d5/2, 60p3/2");
         }
-        return new State(Integer.parseInt(m.group(1)), LETTERS.indexOf(m.group(2).charAt(0)),
-                Integer.parseInt(m.group(3)));
+        try {
+            return new State(Integer.parseInt(m.group(1)), LETTERS.indexOf(m.group(2).charAt(0)),
+                    Integer.parseInt(m.group(3)));
+        } catch (IllegalArgumentException e) {
+            throw new StateParseException(StateParseException.IMPOSSIBLE, input, e.getMessage());
+        }
     }
 
     /** @return j as a number */

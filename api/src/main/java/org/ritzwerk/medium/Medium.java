@@ -119,6 +119,12 @@ public sealed interface Medium permits Medium.Vacuum, Medium.Air {
         public String spec() {
             return "vacuum";
         }
+
+        /** @return {@code "vacuum"}, as {@link #spec()} */
+        @Override
+        public String toString() {
+            return spec();
+        }
     }
 
     /**
@@ -193,6 +199,12 @@ public sealed interface Medium permits Medium.Vacuum, Medium.Air {
         @Override
         public String spec() {
             return model.equals(StandardAir.INSTANCE) ? "air" : "air(" + model.spec() + ")";
+        }
+
+        /** @return as {@link #spec()}: {@code "air"} or {@code "air(<model spec>)"} */
+        @Override
+        public String toString() {
+            return spec();
         }
 
         private void checkRange(double vacuumMetres, double givenMetres, String givenMedium) {

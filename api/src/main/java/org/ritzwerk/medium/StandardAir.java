@@ -38,6 +38,12 @@ public enum StandardAir implements AirModel {
         return SPEC;
     }
 
+    /** @return the {@link #description()}, e.g. in a medium's or a log's text */
+    @Override
+    public String toString() {
+        return description();
+    }
+
     @Override
     public String description() {
         return "standard air (dry, 15 C, 101325 Pa; Morton 2000 eq. 8)";

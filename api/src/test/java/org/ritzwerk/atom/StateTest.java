@@ -21,8 +21,19 @@ class StateTest {
                     assertEquals(s, State.parse(s.label()));
                 });
         assertEquals("43d 2D5/2", State.parse("43d5/2").notation());
-        assertThrows(IllegalArgumentException.class, () -> State.parse("43d7/2"));
-        assertThrows(IllegalArgumentException.class, () -> State.parse("5x1/2"));
+        StateParseException impossible = assertThrows(StateParseException.class, () -> State.parse("43d7/2"));
+        assertEquals(StateParseException.IMPOSSIBLE, impossible.code());
+        assertEquals("cannot read state \"43d7/2\": j must be l +- 1/2 (and 1/2 for l = 0); got l = 2, 2j = 7",
+                impossible.getMessage());
+        assertEquals(StateParseException.MALFORMED,
+                assertThrows(StateParseException.class, () -> State.parse("5x1/2")).code());
+        // Coded as Species.parse's failures are (common practice in this project's api).
+        StateParseException noJ = assertThrows(StateParseException.class, () -> State.parse("60s"));
+        assertEquals(StateParseException.MALFORMED, noJ.code());
+        assertEquals("cannot read state \"60s\": j is missing (write e.g. 60s1/2); expected n, the letter of l and"
+                + " j, e.g. 5s1/2, 43d5/2, 60p3/2", noJ.getMessage());
+        assertEquals(StateParseException.MALFORMED,
+                assertThrows(StateParseException.class, () -> State.parse("abc")).code());
         assertThrows(IllegalArgumentException.class, () -> State.of(3, 3, 7));
     }
 

@@ -29,6 +29,17 @@ class AirVacuumTest {
     private static final double ANGSTROM = 1e-10;
 
     @Test
+    void mediaPrintAsTheirSpec() {
+        // toString gives the text the quantity parser reads back, not the enum constant's name.
+        assertEquals("vacuum", Medium.vacuum().toString());
+        assertEquals("air", Medium.air().toString());
+        Medium lab = Medium.air(new Ciddor1996(21.5, 98_400, 45, 430));
+        assertEquals(lab.spec(), lab.toString());
+        assertTrue(lab.toString().startsWith("air(ciddor"), lab.toString());
+        assertEquals("standard air (dry, 15 C, 101325 Pa; Morton 2000 eq. 8)", StandardAir.INSTANCE.toString());
+    }
+
+    @Test
     void standardAirIsMorton2000Equation8() {
         Medium air = Medium.air();
         for (Map<String, String> row : Golden.rows(AIR_FROM_VACUUM)) {

@@ -63,7 +63,7 @@ final class AlkaliTables {
         State state;
         try {
             state = State.parse(text.strip());
-        } catch (IllegalArgumentException e) {
+        } catch (org.ritzwerk.atom.StateParseException e) {
             throw new OptionException(option + ": " + e.getMessage(), e);
         }
         if (state.n() > HydrogenLikeLines.MAX_N) {

@@ -38,7 +38,7 @@ final class RydbergHyperfineLevels {
         State state;
         try {
             state = State.parse(text);
-        } catch (IllegalArgumentException e) {
+        } catch (org.ritzwerk.atom.StateParseException e) {
             throw new OptionException(STATE_OPTION + ": " + e.getMessage());
         }
         Table table = new Table(List.of(

@@ -192,6 +192,32 @@ class DataContextCommandTest {
     }
 
     /** @return the energy of Rb-87 50s in cm-1 as {@code levels} prints it */
+    @Test
+    void aUserLevelFileOfAnAlkaliAtomMovesItsLevelsAndLines(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("my-li.csv");
+        // Li I levels; the 3s energy 27206.09 cm-1 is invented for the test (the built-in one differs).
+        Files.writeString(file, String.join("\n", "# ritzwerk-levels 1", "# id: my-li-levels",
+                "# title: invented test levels", "# source: invented for tests", "# provenance: measured",
+                "# version: 1", "# energy-unit: cm-1", "species,label,energy,uncertainty,j,note",
+                "Li I,2s 2S1/2,0,0.001,1/2,", "Li I,2p 2P3/2,14904.00,0.001,3/2,",
+                "Li I,3s 2S1/2,27206.09,0.002,1/2,", ""), StandardCharsets.UTF_8);
+        CliTest.Run levels = CliTest.run("levels", "--species", "Li I", "--n-max", "3", "--format", "csv", "--data",
+                file.toString());
+        assertEquals(0, levels.code(), levels.err());
+        List<String> rows = levels.out().lines().collect(Collectors.toList());
+        int column = List.of(rows.get(0).split(",")).indexOf("energy_per_cm");
+        assertEquals(27206.09, rows.stream().filter(r -> r.contains("3s 2S1/2")).map(r -> r.split(",")[column])
+                .mapToDouble(Double::parseDouble).findFirst().orElseThrow(), 0.0, levels.out());
+        CliTest.Run lines = CliTest.run("lines", "--species", "Li I", "--transition", "3s1/2 -> 2p3/2", "--format",
+                "csv", "--data", file.toString());
+        assertEquals(0, lines.code(), lines.err());
+        List<String> lineRows = lines.out().lines().collect(Collectors.toList());
+        int wavenumber = List.of(lineRows.get(0).split(",")).indexOf("wavenumber_per_cm");
+        assertTrue(wavenumber >= 0, lineRows.get(0));
+        // 27206.09 - 14904.00 cm-1: the file's two levels (printed to 1e-5 cm-1).
+        assertEquals(27206.09 - 14904.00, Double.parseDouble(lineRows.get(1).split(",")[wavenumber]), 2e-5);
+    }
+
     private static double rb50s(String... more) {
         List<String> args = new ArrayList<>(List.of("levels", "--species", "Rb-87 I", "--n-max", "50", "--l-max",
                 "0", "--format", "csv"));

@@ -44,7 +44,10 @@ import org.ritzwerk.refdata.internal.RydbergData;
  * {@link DataKind#QUANTUM_DEFECTS} set of highest precedence for the isotope, with the core
  * polarizabilities its {@link QuantumDefects} record carries and the measured levels of the
  * {@link DataKind#LEVELS} set it names (looked up in this context, so whichever provider supplies
- * the record, a user's file, a third party's jar or the built-in data, supplies a whole atom),
+ * the record, a user's file, a third party's jar or the built-in data, supplies a whole atom);
+ * where a {@link DataKind#LEVELS} set of higher precedence covers the isotope (a user's level file
+ * of {@code Li I}, which {@link #levelList} returns), its levels replace those of the same n l j,
+ * so your file wins in levels and lines as it does in {@link #levelList};
  * and R_M computed from this context's nuclear data
  * ({@link QuantumDefectFiles#rydbergPerCm(double)}). The atoms use the Coulomb approximation,
  * except for the low-lying pairs of states with a published dipole element
@@ -268,10 +271,50 @@ public final class DataContext {
                 && registry.load(defects.levelsId().get()) == RydbergData.builtIn().byId().get(defects.levelsId().get())) {
             measured = AlkaliHyperfine.builtIn().withResonanceLevels(species, measured);
         }
+        measured = withOwnLevels(listing, defects.levelsId().orElse(null), species, measured);
         double rydberg = QuantumDefectFiles.rydbergPerCm(isotope(species).atomicMass());
         AlkaliAtom atom = AlkaliAtom.of(defects.withRydbergPerCm(rydberg), measured);
         // published elements of low-lying pairs replace the computed ones (AlkaliDipoles)
         return atom.withPublishedDipoles(alkaliDipoles().elements(atom, species));
+    }
+
+    /**
+     * The measured levels of an alkali atom with those of the level list of highest precedence
+     * for it taking their place, when that list is not the one its quantum-defect set names and
+     * comes before that set in precedence (a user's file, which {@link #levelList} returns too): a
+     * level of the list replaces the same n l j, the other levels stay.
+     */
+    private List<MeasuredLevel> withOwnLevels(DataRegistry.Listing defects, String namedId, Species species,
+            List<MeasuredLevel> measured) {
+        List<DataRegistry.Listing> all = registry.list();
+        int defectsAt = all.indexOf(defects);
+        for (DataRegistry.Listing listing : registry.find(DataKind.LEVELS, species)) {
+            if (listing.info().id().equals(namedId) || all.indexOf(listing) > defectsAt) {
+                return measured;
+            }
+            DataSet set = registry.load(listing.info().id());
+            if (!(set instanceof LevelList list)) {
+                continue;
+            }
+            if (list.unit() != Unit.PER_CENTIMETRE) {
+                throw new ReferenceDataException(ReferenceDataException.INCONSISTENT, "level list '"
+                        + list.info().id() + "' covers " + species.notation() + ", whose model takes measured levels"
+                        + " in cm-1; it is in " + list.unit().symbol() + ": give the energies in cm-1");
+            }
+            List<MeasuredLevel> own;
+            try {
+                own = RydbergData.measuredLevels(list);
+            } catch (ReferenceDataException e) {
+                throw new ReferenceDataException(ReferenceDataException.INCONSISTENT, "level list '"
+                        + list.info().id() + "' covers the alkali atom " + species.notation() + ", whose model takes"
+                        + " levels labelled n l j (e.g. 3s 2S1/2): " + e.getMessage());
+            }
+            Map<State, MeasuredLevel> byState = new java.util.LinkedHashMap<>();
+            measured.forEach(m -> byState.put(m.state(), m));
+            own.forEach(m -> byState.put(m.state(), m));
+            return List.copyOf(byState.values());
+        }
+        return measured;
     }
 
     private List<MeasuredLevel> measuredLevels(String setId, String levelsId, Species species) {

@@ -171,7 +171,7 @@ public final class OutputFiles {
             if (staged.containsKey(target)) {
                 throw new IllegalArgumentException("two outputs name the same file: " + file);
             }
-            Path temporary = temporaryBeside(target);
+            Path temporary = temporaryFor(file, target);
             Pending.FILES.add(temporary);
             staged.put(target, temporary);
             try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(temporary), 1 << 16)) {
@@ -329,6 +329,29 @@ public final class OutputFiles {
             }
         }
         return absolute;
+    }
+
+    /**
+     * The temporary file of {@link Batch#bytes}; a failure names the file asked for, not the
+     * temporary one: a missing folder ({@link java.nio.file.NoSuchFileException}), a path whose
+     * folder is a file ({@link java.nio.file.NotDirectoryException}), a folder that cannot be
+     * written ({@link java.nio.file.AccessDeniedException}).
+     */
+    private static Path temporaryFor(Path file, Path target) throws IOException {
+        Path folder = target.getParent();
+        if (!Files.exists(folder)) {
+            throw new java.nio.file.NoSuchFileException(file.toString(), null, "cannot write it: the folder "
+                    + folder + " does not exist");
+        }
+        if (!Files.isDirectory(folder)) {
+            throw new java.nio.file.NotDirectoryException(file + ": cannot write it: " + folder + " is not a folder");
+        }
+        try {
+            return temporaryBeside(target);
+        } catch (java.nio.file.AccessDeniedException e) {
+            throw new java.nio.file.AccessDeniedException(file.toString(), null, "cannot write it: no file can be"
+                    + " created in the folder " + folder + " (permission denied)");
+        }
     }
 
     /** Creates an empty hidden file beside the target, with the folder's default permissions. */

@@ -34,6 +34,26 @@ class CalibrationFilesTest {
     }
 
     @Test
+    void aMissingFolderIsNamedWithTheTargetNotTheTemporaryFile(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("no-such-folder").resolve("calibration.json");
+        java.nio.file.NoSuchFileException e = assertThrows(java.nio.file.NoSuchFileException.class,
+                () -> CalibrationFiles.write(file, fitted(), 1024, "invented pairs", List.of("a", "b", "c", "d", "e",
+                        "f")));
+        assertEquals(file + ": cannot write it: the folder " + file.getParent().toAbsolutePath()
+                + " does not exist", e.getMessage());
+        assertTrue(!e.getMessage().contains(".part"), e.getMessage());
+        Path plainFile = dir.resolve("plain");
+        Files.writeString(plainFile, "x");
+        IOException notFolder = assertThrows(IOException.class, () -> CalibrationFiles.write(
+                plainFile.resolve("calibration.json"), fitted(), 1024, "invented pairs",
+                List.of("a", "b", "c", "d", "e", "f")));
+        assertTrue(notFolder.getMessage().endsWith("is not a folder"), notFolder.getMessage());
+        try (var files = Files.list(dir)) {
+            assertEquals(1, files.count(), "no temporary file left");
+        }
+    }
+
+    @Test
     void roundTripKeepsTheSolution(@TempDir Path dir) throws IOException {
         DispersionSolution fitted = fitted();
         Path file = dir.resolve("calibration.json");

@@ -392,6 +392,51 @@ class DataContextTest {
         assertTrue(DataContext.builtIn().alkaliAtom(RB87) != context.alkaliAtom(RB87), "no global cache");
     }
 
+    /** A user's Li I level file; its 3s energy 27206.09 cm-1 is invented (the built-in one differs). */
+    static final String USER_LI_LEVELS = String.join("\n",
+            "# ritzwerk-levels 1",
+            "# id: my-li-levels",
+            "# title: invented test levels",
+            "# source: invented for tests",
+            "# provenance: measured",
+            "# version: 1",
+            "# energy-unit: cm-1",
+            "species,label,energy,uncertainty,j,note",
+            "Li I,2s 2S1/2,0,0.001,1/2,",
+            "Li I,2p 2P1/2,14903.66,0.001,1/2,",
+            "Li I,2p 2P3/2,14904.00,0.001,3/2,",
+            "Li I,3s 2S1/2,27206.09,0.002,1/2,",
+            "") ;
+
+    @Test
+    void aUserLevelFileOfAnAlkaliAtomWinsInItsLevelsAndLines(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("my-li.csv");
+        Files.writeString(file, USER_LI_LEVELS, StandardCharsets.UTF_8);
+        DataContext builtIn = DataContext.builtIn();
+        DataContext mine = builtIn.withUserFile(file);
+        Species li = Species.parse("Li I");
+        State s3 = State.of(3, 0, 1);
+        assertNotEquals(27206.09, builtIn.alkaliAtom(li).level(s3).energyPerCm(), 1e-3);
+        assertEquals("my-li-levels", mine.levelList(li).orElseThrow().info().id());
+        // The file's levels replace the built-in ones of the same n l j (the values above, invented).
+        assertEquals(27206.09, mine.alkaliAtom(li).level(s3).energyPerCm(), 0.0);
+        assertEquals(14903.66, mine.alkaliAtom(li).level(State.of(2, 1, 1)).energyPerCm(), 0.0);
+        // A level the file does not give stays the built-in one.
+        State d3 = State.of(3, 2, 5);
+        assertEquals(builtIn.alkaliAtom(li).level(d3).energyPerCm(), mine.alkaliAtom(li).level(d3).energyPerCm(),
+                0.0);
+        // The level query and the line query take them.
+        org.ritzwerk.engine.levels.LevelSet levels = org.ritzwerk.engine.levels.LevelQuery.defaults().withMaxN(3)
+                .run(DataLevels.sources(mine, List.of(Species.parse("Li-7 I")), Tier.QED));
+        int at = java.util.stream.IntStream.range(0, levels.size()).filter(i -> levels.label(i).startsWith("3s"))
+                .findFirst().orElseThrow();
+        assertEquals(27206.09, levels.energyPerCm(at), 0.0);
+        org.ritzwerk.engine.lines.LineSet lines = org.ritzwerk.engine.lines.LineQuery.defaults()
+                .withTransition(s3, State.of(2, 1, 3)).run(DataLines.sources(mine, List.of(li), Tier.QED));
+        // 3s - 2p3/2 at 1e7 / (27206.09 - 14904.00) cm-1 in vacuum, from the file's two levels.
+        assertEquals(1e7 / (27206.09 - 14904.00), lines.vacuumWavelengthNm(0), 1e-9);
+    }
+
     /** The built-in Rb-87 quantum-defect file's text, to edit into a user's file. */
     private static String builtInRb87Defects() throws IOException {
         try (InputStream in = DataContext.class.getResourceAsStream("rydberg/quantum-defects-rb-87.csv")) {

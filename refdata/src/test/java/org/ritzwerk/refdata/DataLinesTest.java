@@ -24,6 +24,30 @@ class DataLinesTest {
      * triplet 587.6 nm among them with weight 7 A; a species with neither is refused.
      */
     @Test
+    void aSpeciesFilterWithoutMassNumberKeepsTheLinesOfTheIsotopeTheContextResolves() {
+        // "Cs I" is computed as Cs-133 I; filtering by "Cs I" gave no lines when the filter was exact.
+        DataContext data = DataContext.builtIn();
+        for (String element : List.of("Li I", "Na I", "Rb I", "Cs I")) {
+            Species s = Species.parse(element);
+            LineSources sources = DataLines.sources(data, List.of(s), Tier.QED);
+            LineQuery query = LineQuery.defaults().withMaxN(8)
+                    .withWindow(Wavelength.ofNanometres(300, Medium.vacuum()), Wavelength.ofNanometres(1000,
+                            Medium.vacuum()));
+            LineSet all = query.run(sources);
+            assertTrue(all.size() > 0, element);
+            assertEquals(all, query.withSpecies(List.of(s)).run(sources), element);
+        }
+        // Cs D2 and D1 at 852.35 and 894.59 nm in vacuum (NIST ASD Cs I, from memory): 0.01 nm.
+        LineSet cs = LineQuery.defaults().withMaxN(6).withMaxL(1).withSpecies(List.of(Species.parse("Cs I")))
+                .withWindow(Wavelength.ofNanometres(800, Medium.vacuum()),
+                        Wavelength.ofNanometres(900, Medium.vacuum()))
+                .run(DataLines.sources(data, List.of(Species.parse("Cs I")), Tier.QED));
+        assertEquals(2, cs.size());
+        assertEquals(852.35, cs.vacuumWavelengthNm(0), 0.01);
+        assertEquals(894.59, cs.vacuumWavelengthNm(1), 0.01);
+    }
+
+    @Test
     void aLampIsTheLampSetOrTheLevelListsRitzLines() {
         DataContext data = DataContext.builtIn();
         org.ritzwerk.engine.calibrate.LampSet neon = DataLines.lamp(data, Species.parse("Ne I"), Medium.air());

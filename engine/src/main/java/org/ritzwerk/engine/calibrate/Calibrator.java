@@ -593,7 +593,7 @@ public final class Calibrator {
         boolean outside = false;
         for (int s = 0; s <= 64; s++) {
             double p = (pixels - 1) * s / 64.0;
-            double nm = solution.wavelengthAt(p);
+            double nm = solution.evaluate(p);
             lo = Math.min(lo, nm);
             hi = Math.max(hi, nm);
             outside |= !prior.admits(nm, solution.dispersionAt(p), Double.NEGATIVE_INFINITY);

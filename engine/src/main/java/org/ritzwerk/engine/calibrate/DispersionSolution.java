@@ -299,9 +299,37 @@ public final class DispersionSolution {
 
     /**
      * @param pixel a pixel position (fractional; pixel i centred at i)
+     * @return whether it lies in the fitted (valid) range [{@link #lowestPixel()},
+     *         {@link #highestPixel()}], ends included; false for NaN
+     */
+    public boolean isWithinFittedRange(double pixel) {
+        return pixel >= lowestPixel && pixel <= highestPixel;
+    }
+
+    /**
+     * The wavelength at a pixel. Outside the fitted range [{@link #lowestPixel()},
+     * {@link #highestPixel()}] ({@link #isWithinFittedRange}) the polynomial is extrapolated, with
+     * no flag: its error grows quickly there ({@link #wavelengthSigmaAt}), and far out the
+     * polynomial gives numbers that are no wavelength at all, which are refused.
+     *
+     * @param pixel a pixel position (fractional; pixel i centred at i)
      * @return the wavelength there in nm; NaN for NaN
+     * @throws IllegalArgumentException when the polynomial gives no positive finite wavelength
+     *         there (only possible outside the fitted range of an accepted calibration)
      */
     public double wavelengthAt(double pixel) {
+        double nm = evaluate(pixel);
+        if (!(nm > 0 && nm < Double.POSITIVE_INFINITY) && !Double.isNaN(pixel)) {
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "pixel %s: the dispersion"
+                    + " solution gives %s nm there, which is not a wavelength; it was fitted over pixels %s to %s"
+                    + " and is extrapolated beyond them (see isWithinFittedRange)", pixel, nm, lowestPixel,
+                    highestPixel));
+        }
+        return nm;
+    }
+
+    /** The polynomial at a pixel, unchecked (for the calibration's own search and checks). */
+    double evaluate(double pixel) {
         return PolynomialLeastSquares.evaluate(coefficients, scaled(pixel));
     }
 
@@ -338,16 +366,19 @@ public final class DispersionSolution {
 
     /**
      * The pixel at which the solution reaches a wavelength, by Newton's method started from the
-     * linear term (to 1e-9 pixel).
+     * linear term (to 1e-9 pixel). A wavelength beyond those of the fitted range gives a pixel
+     * outside it, by extrapolating the polynomial, with no flag: check the result with
+     * {@link #isWithinFittedRange}.
      *
-     * @param wavelengthNm a wavelength in nm in this solution's medium
+     * @param wavelengthNm a wavelength in nm in this solution's medium, finite and above 0
      * @return the pixel position
-     * @throws IllegalArgumentException when the wavelength is not finite, or Newton's method does
-     *         not converge (the polynomial does not reach it, or turns back, near the fitted range)
+     * @throws IllegalArgumentException when the wavelength is not finite or not above 0, or Newton's
+     *         method does not converge (the polynomial does not reach it, or turns back, near the
+     *         fitted range)
      */
     public double pixelAt(double wavelengthNm) {
-        if (!Double.isFinite(wavelengthNm)) {
-            throw new IllegalArgumentException("wavelength must be finite, got " + wavelengthNm + " nm");
+        if (!(wavelengthNm > 0) || !Double.isFinite(wavelengthNm)) {
+            throw new IllegalArgumentException("wavelength must be finite and above 0, got " + wavelengthNm + " nm");
         }
         double x = (wavelengthNm - coefficients[0]) / coefficients[1];
         for (int iteration = 0; iteration < 100; iteration++) {
@@ -364,7 +395,7 @@ public final class DispersionSolution {
         }
         throw new IllegalArgumentException("the dispersion solution does not reach " + wavelengthNm
                 + " nm: Newton's method found no pixel (solution fitted over pixels " + lowestPixel + " to "
-                + highestPixel + ", " + wavelengthAt(lowestPixel) + " to " + wavelengthAt(highestPixel) + " nm)");
+                + highestPixel + ", " + evaluate(lowestPixel) + " to " + evaluate(highestPixel) + " nm)");
     }
 
     /**
@@ -471,7 +502,7 @@ public final class DispersionSolution {
         int direction = 0;
         for (int k = 0; k < samples; k++) {
             double p = k == samples - 1 ? pixels - 1 : k * step;
-            double nm = wavelengthAt(p);
+            double nm = evaluate(p);
             if (!(nm > 0 && nm < maxWavelengthNm)) {
                 return Optional.of(new DetectorDefect(DetectorDefect.Kind.WAVELENGTH_OUT_OF_RANGE, p, nm));
             }

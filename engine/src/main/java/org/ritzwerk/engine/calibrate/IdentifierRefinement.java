@@ -34,8 +34,8 @@ final class IdentifierRefinement {
      * a lamp's lines), three pairs are all a calibration can have, as the matcher allows.
      */
     private static int linesOnDetector(LampLines lines, DispersionSolution solution, int pixels) {
-        double a = solution.wavelengthAt(-0.5);
-        double b = solution.wavelengthAt(pixels - 0.5);
+        double a = solution.evaluate(-0.5);
+        double b = solution.evaluate(pixels - 0.5);
         double lo = Math.min(a, b);
         double hi = Math.max(a, b);
         int count = 0;
@@ -133,7 +133,7 @@ final class IdentifierRefinement {
         }
         return new LampMatch(peakIndex, lineIndex, pixel, pixelSigma, wavelength, wavelengthSigma,
                 lines.sigmasGiven(), residual, match.strongPeaks(), match.strongMatched(), match.degree(),
-                match.hypotheses(), solution.wavelengthAt(0), solution.wavelengthAt(peaks.pixels() - 1),
+                match.hypotheses(), solution.evaluate(0), solution.evaluate(peaks.pixels() - 1),
                 lines.medium(), match.chanceMatches(), match.chanceProbability(), match.distinctHypotheses(),
                 match.secondOrderPeaks());
     }

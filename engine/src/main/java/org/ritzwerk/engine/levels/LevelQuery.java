@@ -48,7 +48,7 @@ public final class LevelQuery {
     }
 
     /** The highest n a query takes (about 4 million levels of a one-electron ion in the hyperfine tier). */
-    public static final int MAX_N = 2000;
+    public static final int MAX_N = AlkaliAtom.MAX_N;
     /** The highest l of alkali levels a query takes. */
     public static final int MAX_L = 50;
     /** The default highest n. */
@@ -119,7 +119,7 @@ public final class LevelQuery {
      * @throws IllegalArgumentException outside that range
      */
     public LevelQuery withBlackBodyTemperature(double kelvin) {
-        if (!(kelvin > 0 && kelvin < 1e5)) {
+        if (!(kelvin > 0 && kelvin < AlkaliAtom.MAX_BLACK_BODY_TEMPERATURE_K)) {
             throw new IllegalArgumentException("the black-body temperature must be above 0 and below 1e5 K, got "
                     + kelvin);
         }

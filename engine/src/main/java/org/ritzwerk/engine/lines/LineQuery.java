@@ -117,12 +117,46 @@ public final class LineQuery {
     }
 
     /**
-     * @param only the species to keep (empty: every species)
+     * Keeps the lines of some species only. A species without a mass number ({@code Cs I}) stands
+     * for its element: it keeps the lines of every isotope of that element and charge, as the
+     * sources resolve it ({@code Cs I} from a data context is computed as {@code Cs-133 I}); a
+     * species with a mass number ({@code Rb-87 I}) keeps that isotope's lines only. A species that
+     * none of the sources offers is refused when the query runs, not silently left without lines.
+     *
+     * @param only the species to keep, at least one (a query takes every species unless this is
+     *             called; {@link #withAllSpecies()} goes back to that)
      * @return this query for those species only
+     * @throws IllegalArgumentException for an empty list (which would read as "no species")
      */
     public LineQuery withSpecies(List<Species> only) {
-        return new LineQuery(List.copyOf(java.util.Objects.requireNonNull(only, "species")), lowHz, highHz, maxN,
-                maxL, tier, multiplets, components, minA, minF, minIntensity, weakest, lowerN, first, second);
+        List<Species> copy = List.copyOf(Objects.requireNonNull(only, "species"));
+        if (copy.isEmpty()) {
+            throw new IllegalArgumentException("withSpecies needs at least one species; a query takes every species"
+                    + " unless withSpecies is called (withAllSpecies() goes back to every species)");
+        }
+        return new LineQuery(copy, lowHz, highHz, maxN, maxL, tier, multiplets, components, minA, minF, minIntensity,
+                weakest, lowerN, first, second);
+    }
+
+    /** @return this query for the lines of every species the sources offer (the default) */
+    public LineQuery withAllSpecies() {
+        return new LineQuery(List.of(), lowHz, highHz, maxN, maxL, tier, multiplets, components, minA, minF,
+                minIntensity, weakest, lowerN, first, second);
+    }
+
+    /**
+     * @param wanted a species asked for with {@link #withSpecies}
+     * @param offered a species a source offers
+     * @return whether {@code wanted} covers {@code offered}: the same species, or {@code wanted}
+     *         names no mass number and {@code offered} is an isotope of the same element and charge
+     */
+    static boolean covers(Species wanted, Species offered) {
+        return wanted.equals(offered) || wanted.massNumber() == 0 && wanted.z() == offered.z()
+                && wanted.charge() == offered.charge();
+    }
+
+    private boolean wanted(Species offered) {
+        return species.isEmpty() || species.stream().anyMatch(w -> covers(w, offered));
     }
 
     /**
@@ -288,9 +322,10 @@ public final class LineQuery {
     public LineSet run(LineSources sources, Progress progress) {
         Objects.requireNonNull(sources, "sources");
         Objects.requireNonNull(progress, "progress");
+        requireOffered(sources);
         List<LineSet> found = new ArrayList<>();
         for (LineSources.Entry entry : sources.entries()) {
-            if (entry.species() != null && !species.isEmpty() && !species.contains(entry.species())) {
+            if (entry.species() != null && !wanted(entry.species())) {
                 continue;
             }
             LineSet lines;
@@ -319,6 +354,33 @@ public final class LineQuery {
             found.add(lines.filter(i -> keep(all, i)));
         }
         return LineSet.concat(found).sortedByFallingFrequency();
+    }
+
+    /** Refuses a species of {@link #withSpecies} that no source offers, naming those they do. */
+    private void requireOffered(LineSources sources) {
+        if (species.isEmpty()) {
+            return;
+        }
+        java.util.Set<Species> offered = new java.util.LinkedHashSet<>();
+        for (LineSources.Entry entry : sources.entries()) {
+            if (entry.species() != null) {
+                offered.add(entry.species());
+            } else if (entry.list() != null) {
+                for (int i = 0; i < entry.list().size(); i++) {
+                    offered.add(entry.list().species(i));
+                }
+            } else {
+                offered.addAll(entry.set().speciesList());
+            }
+        }
+        List<String> missing = species.stream().filter(w -> offered.stream().noneMatch(o -> covers(w, o)))
+                .map(Species::notation).toList();
+        if (!missing.isEmpty()) {
+            throw new IllegalArgumentException("withSpecies: " + String.join(", ", missing) + (missing.size() == 1
+                    ? " is" : " are") + " offered by none of the sources, which offer "
+                    + offered.stream().map(Species::notation).toList()
+                    + "; add a source for it or leave it out of withSpecies");
+        }
     }
 
     private LineSet hydrogenLike(Species ion, HydrogenLikeModel own, DoubleConsumer told) {
@@ -353,7 +415,7 @@ public final class LineQuery {
     }
 
     private boolean keep(LineSet set, int i) {
-        if (!species.isEmpty() && !species.contains(set.species(i))) {
+        if (!wanted(set.species(i))) {
             return false;
         }
         double hz = set.frequencyHz(i);

@@ -392,7 +392,7 @@ public final class LineSet {
         }
         try {
             return State.parse(label);
-        } catch (IllegalArgumentException e) {
+        } catch (org.ritzwerk.atom.StateParseException e) {
             return null;        // a label in another notation: the level's quantum numbers stay unknown
         }
     }

@@ -82,13 +82,24 @@ public final class LineSources {
     }
 
     /**
+     * The Ritz job of {@link #withLevels(RitzLevels)} and {@link #withLevelList(LevelList)}: the
+     * electric-dipole parity and J rules and, where both labels give an LS term, the LS-coupling
+     * rules (no spin change, Delta L = 0, +-1, not L = 0 to 0), as refdata's {@code DataLines} and
+     * the {@code lines} command apply them. For the parity and J rules only, give
+     * {@link RitzLines#defaults()} to {@link #withLevels(RitzLevels, RitzLines)} or
+     * {@link #withLevelList(LevelList, RitzLines)}; for intercombination lines,
+     * {@code RITZ_RULES.withIntercombination(true)}.
+     */
+    public static final RitzLines RITZ_RULES = RitzLines.defaults().withLsRules(true);
+
+    /**
      * @param levels the levels of one species (a level list's rows, or a level optimisation's
      *               result with its covariance)
      * @return these sources and the lines of those levels by the Ritz combination principle,
-     *         under the electric-dipole rules of {@link RitzLines#defaults()}
+     *         under the electric-dipole and LS rules of {@link #RITZ_RULES}
      */
     public LineSources withLevels(RitzLevels levels) {
-        return withLevels(levels, RitzLines.defaults());
+        return withLevels(levels, RITZ_RULES);
     }
 
     /**
@@ -106,17 +117,31 @@ public final class LineSources {
     /**
      * @param list a level list (built-in or a user's {@code ritzwerk-levels} file)
      * @return these sources and the Ritz lines of each species in the list, in the order the species
-     *         first appear, under the rules of {@link RitzLines#defaults()}
+     *         first appear, under the electric-dipole and LS rules of {@link #RITZ_RULES} (the lines
+     *         refdata's {@code DataLines} gives; it adds the A values of a companion line list)
      */
     public LineSources withLevelList(LevelList list) {
+        return withLevelList(list, RITZ_RULES);
+    }
+
+    /**
+     * @param list a level list
+     * @param job  the Ritz job to compute each species' lines with (its selection rules, A values;
+     *             a query's window is applied on top), e.g. {@link RitzLines#defaults()} for the
+     *             parity and J rules only
+     * @return these sources and the Ritz lines of each species in the list, in the order the species
+     *         first appear
+     */
+    public LineSources withLevelList(LevelList list, RitzLines job) {
         Objects.requireNonNull(list, "list");
+        Objects.requireNonNull(job, "job");
         LineSources more = this;
         Set<Species> seen = new LinkedHashSet<>();
         for (int i = 0; i < list.size(); i++) {
             seen.add(list.species(i));
         }
         for (Species s : seen) {
-            more = more.withLevels(RitzLevels.of(list, s));
+            more = more.withLevels(RitzLevels.of(list, s), job);
         }
         return more;
     }

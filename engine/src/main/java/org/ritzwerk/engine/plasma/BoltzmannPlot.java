@@ -45,6 +45,9 @@ public final class BoltzmannPlot {
     private BoltzmannPlot() {
     }
 
+    /** Upper energies closer than this share of their size are one energy (common practice). */
+    private static final double SAME_ENERGY = 1e-12;
+
     /**
      * @param counting           how the intensities were measured
      * @param intensity          line intensities, finite and positive, any common scale
@@ -143,6 +146,18 @@ public final class BoltzmannPlot {
             sx += w[i] * x[i];
             sy += w[i] * y[i];
         }
+        // Equal energies (to rounding: the weighted mean of equal numbers need not be one of them,
+        // which left a spread of 1e-34 J and a slope of 1e18 J^-1) give no plot.
+        double lowest = Double.POSITIVE_INFINITY;
+        double highest = Double.NEGATIVE_INFINITY;
+        for (double e : x) {
+            lowest = Math.min(lowest, e);
+            highest = Math.max(highest, e);
+        }
+        if (!(highest - lowest > SAME_ENERGY * Math.max(Math.abs(lowest), Math.abs(highest)))) {
+            throw new IllegalArgumentException("all lines share one upper-level energy (" + lowest + " J, within "
+                    + SAME_ENERGY + " of it); a Boltzmann plot needs lines from upper levels of different energies");
+        }
         // Centre on the weighted means, so that energies of 1e-18 J and logs of 1e1 stay well
         // conditioned.
         double mx = sx / sw;
@@ -153,9 +168,6 @@ public final class BoltzmannPlot {
             double dx = x[i] - mx;
             sxx += w[i] * dx * dx;
             sxy += w[i] * dx * (y[i] - my);
-        }
-        if (!(sxx > 0)) {
-            throw new IllegalArgumentException("all lines share one upper-level energy; a Boltzmann plot needs a spread");
         }
         double slope = sxy / sxx;
         double intercept = my - slope * mx;

@@ -41,6 +41,14 @@ public final class IonisationBalance {
 
     private static final double ELECTRON_MASS = PhysicalConstants.ELECTRON_MASS.value();
 
+    /**
+     * The largest ionisation energy taken, 1e-13 J (about 624 keV): above every atom's and ion's,
+     * the largest being the 1s binding of one-electron uranium, about 132 keV or 2.1e-14 J (from
+     * memory). A larger number is a unit slip: an energy in eV (13.6 for hydrogen) or cm^-1
+     * given as J.
+     */
+    public static final double MAX_IONISATION_ENERGY_J = 1e-13;
+
     private IonisationBalance() {
     }
 
@@ -65,7 +73,9 @@ public final class IonisationBalance {
      *
      * @param temperature      temperature in K, positive
      * @param electronDensity  electron density in m^-3, positive
-     * @param ionisationEnergy ionisation energy chi_k of the lower stage in J, positive
+     * @param ionisationEnergy ionisation energy chi_k of the lower stage in J, positive and at most
+     *                         {@value #MAX_IONISATION_ENERGY_J} (above every ion's: a larger value is
+     *                         an energy in eV or cm^-1 given as J)
      * @param lowerPartition   partition function U_k of the lower stage, positive
      * @param upperPartition   partition function U_(k+1) of the upper stage, positive
      * @return n_(k+1) / n_k; may overflow to infinity or underflow to 0 at extreme conditions
@@ -75,7 +85,7 @@ public final class IonisationBalance {
     public static double sahaRatio(double temperature, double electronDensity, double ionisationEnergy,
             double lowerPartition, double upperPartition) {
         positive("electron density", electronDensity, "m^-3");
-        positive("ionisation energy", ionisationEnergy, "J");
+        ionisationEnergy("ionisation energy", ionisationEnergy);
         positive("partition function of the lower stage", lowerPartition, "");
         positive("partition function of the upper stage", upperPartition, "");
         return sahaPrefactor(temperature) / electronDensity * upperPartition / lowerPartition
@@ -86,7 +96,7 @@ public final class IonisationBalance {
      * @param temperature       temperature in K, positive
      * @param electronDensity   electron density in m^-3, positive
      * @param ionisationEnergies ionisation energy of stage k to k+1 in J, one per stage but the
-     *                           last, positive
+     *                           last, positive and at most {@value #MAX_IONISATION_ENERGY_J}
      * @param partitionFunctions partition function of each stage, positive
      * @return the fraction of the element's atoms in each stage, summing to 1
      * @throws IllegalArgumentException naming the argument out of range
@@ -104,7 +114,7 @@ public final class IonisationBalance {
             positive("partition function of stage " + k, partitionFunctions[k], "");
         }
         for (int k = 0; k < stages - 1; k++) {
-            positive("ionisation energy of stage " + k, ionisationEnergies[k], "J");
+            ionisationEnergy("ionisation energy of stage " + k, ionisationEnergies[k]);
         }
         double kT = PhysicalConstants.K * temperature;
         // ln of (2 pi m_e k T / h^2)^(3/2) / n_e, the free-electron states per electron.
@@ -207,6 +217,16 @@ public final class IonisationBalance {
         if (model.nucleus().z() != z) {
             throw new IllegalArgumentException("this balance needs a nucleus with Z = " + z + ", got Z = "
                     + model.nucleus().z());
+        }
+    }
+
+    private static void ionisationEnergy(String what, double joules) {
+        positive(what, joules, "J");
+        if (joules > MAX_IONISATION_ENERGY_J) {
+            double electronVolt = PhysicalConstants.E;
+            throw new IllegalArgumentException(what + " must be at most " + MAX_IONISATION_ENERGY_J + " J (above every"
+                    + " ion's), got " + joules + " J; an energy in eV? multiply it by " + electronVolt + " J/eV ("
+                    + joules + " eV = " + String.format(java.util.Locale.ROOT, "%.4g", joules * electronVolt) + " J)");
         }
     }
 

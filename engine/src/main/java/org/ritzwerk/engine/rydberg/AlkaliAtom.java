@@ -453,6 +453,19 @@ public final class AlkaliAtom {
     }
 
     /**
+     * The highest principal quantum number of a state this model is asked about, 2000: the limit
+     * of the level and line queries and of the command line (their {@code MAX_N}). Black-body
+     * channels out of a state reach neighbours above it, which are computed internally.
+     */
+    public static final int MAX_N = 2000;
+    /**
+     * Black-body temperatures must lie below this, 1e5 K, as in the level query
+     * ({@code LevelQuery.withBlackBodyTemperature}): black-body photoionisation, which is left out,
+     * grows with temperature (kT at 1e5 K is 8.6 eV, above every alkali ionisation energy).
+     */
+    public static final double MAX_BLACK_BODY_TEMPERATURE_K = 1e5;
+
+    /**
      * @param n    principal quantum number
      * @param l    orbital quantum number
      * @param twoJ twice j
@@ -464,12 +477,27 @@ public final class AlkaliAtom {
     }
 
     /**
-     * @param state a state
+     * @param state a state, n at most {@value #MAX_N}
      * @return its level: energy above the ground level in cm^-1, n*, and where the energy comes from
      * @throws RydbergException when the model has no energy for it (see the class comment)
+     * @throws IllegalArgumentException for n above {@value #MAX_N}
      */
     public Level level(State state) {
+        return levelOf(requireAsked(state));
+    }
+
+    /** The state, refused when its n is above {@link #MAX_N}. */
+    private static State requireAsked(State state) {
         Objects.requireNonNull(state, "state");
+        if (state.n() > MAX_N) {
+            throw new IllegalArgumentException(state.notation() + " has n = " + state.n() + "; states are computed"
+                    + " for n up to " + MAX_N + " (as the level and line queries take them)");
+        }
+        return state;
+    }
+
+    /** The level of any state, n not limited (black-body neighbours of a state near MAX_N). */
+    private Level levelOf(State state) {
         double r = defects.rydbergPerCm();
         double limit = defects.limitPerCm();
         MeasuredLevel m = measured.get(state);
@@ -641,11 +669,15 @@ public final class AlkaliAtom {
      * @throws RydbergException when the model has no energy for it
      */
     public RadialWavefunction wavefunction(State state) {
+        return wavefunctionOf(requireAsked(state));
+    }
+
+    private RadialWavefunction wavefunctionOf(State state) {
         RadialWavefunction known = wavefunctions.get(state);
         if (known != null) {
             return known;
         }
-        Level level = level(state);
+        Level level = levelOf(state);
         double inner = innerRadiusBohr() / lengthScale();
         RadialWavefunction computed = RadialWavefunction.integrate(state, level.effectiveN(), inner, step,
                 lengthScale(), model);
@@ -856,7 +888,7 @@ public final class AlkaliAtom {
         RadialWavefunction upper = wavefunction(state);
         List<DecayChannel> channels = new ArrayList<>();
         for (State lower : neighbours(state, state.n() + 1)) {
-            Level level = level(lower);
+            Level level = levelOf(lower);
             if (level.energyPerCm() >= e) {
                 continue;
             }
@@ -865,7 +897,7 @@ public final class AlkaliAtom {
                 continue;
             }
             double nu = (e - level.energyPerCm()) * 100 * C;
-            double d = angular * dipoleBohr(wavefunction(lower), upper);
+            double d = angular * dipoleBohr(wavefunctionOf(lower), upper);
             channels.add(new DecayChannel(state, lower, nu, rate(nu, d, state.twoJ())));
         }
         return channels;
@@ -923,12 +955,15 @@ public final class AlkaliAtom {
      * (the continuum) is not included.
      *
      * @param state        the state
-     * @param temperatureK the radiation temperature, K; finite, not negative (0 gives no channels)
+     * @param temperatureK the radiation temperature, K; 0 (no channels) to below
+     *                     {@value #MAX_BLACK_BODY_TEMPERATURE_K}
      * @return the channels with their rates, s^-1
      */
     public List<DecayChannel> blackbodyChannels(State state, double temperatureK) {
-        if (!(temperatureK >= 0) || Double.isInfinite(temperatureK)) {
-            throw new IllegalArgumentException("temperature must be finite and >= 0 K, got " + temperatureK);
+        if (!(temperatureK >= 0 && temperatureK < MAX_BLACK_BODY_TEMPERATURE_K)) {
+            throw new IllegalArgumentException("the black-body temperature must be 0 to below "
+                    + MAX_BLACK_BODY_TEMPERATURE_K + " K (black-body photoionisation is left out), got " + temperatureK
+                    + " K");
         }
         List<DecayChannel> channels = new ArrayList<>();
         if (temperatureK == 0) {
@@ -941,12 +976,12 @@ public final class AlkaliAtom {
             if (angular == 0) {
                 continue;
             }
-            Level level = level(other);
+            Level level = levelOf(other);
             double nu = Math.abs(level.energyPerCm() - e) * 100 * C;
             if (nu == 0) {
                 continue;
             }
-            double d = angular * dipoleBohr(self, wavefunction(other));
+            double d = angular * dipoleBohr(self, wavefunctionOf(other));
             double occupation = 1 / Math.expm1(H * nu / (PhysicalConstants.K * temperatureK));
             double rate = level.energyPerCm() < e ? rate(nu, d, state.twoJ()) * occupation
                     : rate(nu, d, other.twoJ()) * occupation * (other.twoJ() + 1.0) / (state.twoJ() + 1.0);
@@ -974,7 +1009,8 @@ public final class AlkaliAtom {
      * @return {@code 1 / (sum A + black-body rate)}, seconds (black-body photoionisation not included)
      */
     public double effectiveLifetime(State state, double temperatureK) {
-        return 1 / (spontaneousRate(state) + blackbodyRate(state, temperatureK));
+        double blackBody = blackbodyRate(state, temperatureK);     // checks the temperature first
+        return 1 / (spontaneousRate(state) + blackBody);
     }
 
     @Override

@@ -7,6 +7,9 @@ import java.util.Arrays;
  * the caller's choice (nm, Hz, cm-1, ...), strictly rising or strictly falling with the pixel
  * index, as the detector reads them. Pixel i lies between edge(i) and edge(i + 1). Renderers
  * fill their output in this order, so a falling grid gives counts in the detector's order.
+ * Because the unit is the caller's, edges may be 0 or negative (pixel positions from -0.5, an
+ * axis centred on a line); a wavelength grid that does not start above 0 is refused where it is
+ * first known to be one, by {@link Scene#builder(PixelGrid)}.
  * Immutable.
  */
 public final class PixelGrid {

@@ -49,4 +49,25 @@ class DispersionSolutionCheckTest {
         assertEquals(java.util.Arrays.toString(polynomial.powerCoefficients()),
                 java.util.Arrays.toString(solution.powerCoefficients()));
     }
+
+    @Test
+    void extrapolationIsToldAndANonPhysicalWavelengthIsRefused() {
+        // 500 + 5 x nm with x = (p - 49.5) / 49.5, fitted over pixels 0 to 99.
+        DispersionSolution solution = stored(500, 5);
+        assertTrue(solution.isWithinFittedRange(0) && solution.isWithinFittedRange(99));
+        assertTrue(!solution.isWithinFittedRange(-0.5) && !solution.isWithinFittedRange(1e6)
+                && !solution.isWithinFittedRange(Double.NaN));
+        // Extrapolated, still a wavelength: 500 + 5 (200 - 49.5) / 49.5 nm, given (not refused).
+        assertEquals(500 + 5 * (200 - 49.5) / 49.5, solution.wavelengthAt(200), 1e-12);
+        // Far out it falls below 0 (at p = 49.5 - 99 * 49.5): refused, naming the pixel and the range.
+        IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                () -> solution.wavelengthAt(-1e6));
+        assertTrue(e.getMessage().startsWith("pixel -1000000.0: the dispersion solution gives -100515.1"),
+                e.getMessage());
+        assertTrue(e.getMessage().contains("fitted over pixels 0.0 to 99.0"), e.getMessage());
+        assertTrue(Double.isNaN(solution.wavelengthAt(Double.NaN)));
+        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class, () -> solution.pixelAt(-3));
+        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class, () -> solution.pixelAt(0));
+        assertEquals(99, solution.pixelAt(505), 1e-9);
+    }
 }

@@ -257,6 +257,46 @@ class LineQueryTest {
     }
 
     @Test
+    void anElementLevelSpeciesKeepsTheLinesOfItsIsotopes() {
+        // The test rubidium is Rb-87 I; "Rb I" names the element, as a data context resolves it.
+        LineSources sources = LineSources.none().withAlkali(Sources.rubidium()).withHydrogenLike(Sources.H,
+                Sources.hydrogen(Tier.QED));
+        assertEquals(Species.parse("Rb-87 I"), Sources.rubidium().species());
+        LineQuery window = LineQuery.defaults().withWindow(Wavelength.ofNanometres(775, Medium.vacuum()),
+                Wavelength.ofNanometres(800, Medium.vacuum())).withMaxN(5).withMaxL(1);
+        LineSet byElement = window.withSpecies(List.of(Species.parse("Rb I"))).run(sources);
+        LineSet byIsotope = window.withSpecies(List.of(Species.parse("Rb-87 I"))).run(sources);
+        // The D lines, 780.24 and 794.98 nm vacuum (NIST ASD Rb I, from memory): 0.01 nm.
+        assertEquals(2, byElement.size());
+        assertEquals(780.24, byElement.vacuumWavelengthNm(0), 0.01);
+        assertEquals(794.98, byElement.vacuumWavelengthNm(1), 0.01);
+        assertEquals(byIsotope, byElement);
+        assertEquals(window.run(sources), byElement, "H I has no line in 775-800 nm at n <= 5 (common practice)");
+    }
+
+    @Test
+    void aSpeciesNoSourceOffersOrAnEmptySpeciesListIsRefused() {
+        LineSources sources = LineSources.none().withAlkali(Sources.rubidium()).withLineList(Sources.neonInAir());
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> LineQuery.defaults()
+                .withSpecies(List.of(Species.parse("Rb-85 I"), Species.parse("Ne I"), Species.parse("Ar I")))
+                .withWindow(Wavelength.ofNanometres(500, Medium.vacuum()),
+                        Wavelength.ofNanometres(900, Medium.vacuum()))
+                .run(sources));
+        assertEquals("withSpecies: Rb-85 I, Ar I are offered by none of the sources, which offer [Rb-87 I, Ne I];"
+                + " add a source for it or leave it out of withSpecies", e.getMessage());
+        // An isotope does not stand for another isotope, nor D for hydrogen of unstated mass.
+        assertThrows(IllegalArgumentException.class, () -> LineQuery.defaults().withSpecies(List.of(
+                Species.parse("D I"))).run(LineSources.none().withLineSet(LineSet.empty())));
+        IllegalArgumentException empty = assertThrows(IllegalArgumentException.class,
+                () -> LineQuery.defaults().withSpecies(List.of()));
+        assertTrue(empty.getMessage().startsWith("withSpecies needs at least one species"), empty.getMessage());
+        LineQuery neon = LineQuery.defaults().withSpecies(List.of(Species.parse("Ne I")));
+        LineSources lists = LineSources.none().withLineList(Sources.neonInAir()).withLineList(Sources.wavenumberList());
+        assertEquals(3, neon.run(lists).size(), "the three neon lines of the test list");
+        assertEquals(5, neon.withAllSpecies().run(lists).size(), "and the two of the wavenumber list");
+    }
+
+    @Test
     void computedSourcesNeedAWindowOrATransition() {
         IllegalStateException e = assertThrows(IllegalStateException.class, () -> LineQuery.defaults()
                 .run(LineSources.none().withHydrogenLike(Sources.H, Sources.hydrogen(Tier.QED))));

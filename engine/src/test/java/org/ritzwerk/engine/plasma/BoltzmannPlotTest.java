@@ -106,9 +106,15 @@ class BoltzmannPlotTest {
         assertEquals("energy-flux intensities need the line frequencies",
                 assertThrows(IllegalArgumentException.class,
                         () -> BoltzmannPlot.fit(Counting.ENERGY, ones, null, e, ones, ones, null)).getMessage());
-        assertEquals("all lines share one upper-level energy; a Boltzmann plot needs a spread",
+        assertEquals("all lines share one upper-level energy (" + EV + " J, within 1.0E-12 of it); a Boltzmann plot"
+                + " needs lines from upper levels of different energies",
                 assertThrows(IllegalArgumentException.class, () -> BoltzmannPlot.fit(Counting.PHOTONS,
                         new double[] {1, 2, 3}, null, new double[] {EV, EV, EV}, ones, ones, null)).getMessage());
+        // With unequal weights the weighted mean of equal energies is off by rounding; it was read
+        // as a spread of 1e-34 J and a slope of 7e18 J^-1 ("the plot rises").
+        assertTrue(assertThrows(IllegalArgumentException.class, () -> BoltzmannPlot.fit(Counting.PHOTONS,
+                new double[] {1, 2}, new double[] {0.1, 0.1}, new double[] {1e-18, 1e-18}, new double[] {2, 2},
+                new double[] {1e7, 1e7}, null)).getMessage().startsWith("all lines share one upper-level energy"));
         assertTrue(assertThrows(IllegalArgumentException.class, () -> BoltzmannPlot.fit(Counting.PHOTONS,
                 new double[] {1, 2, 3}, null, e, ones, ones, null)).getMessage()
                 .contains("no positive excitation temperature"));

@@ -34,4 +34,17 @@ class SahaRatioTest {
         assertThrows(IllegalArgumentException.class, () -> IonisationBalance.sahaRatio(1e4, 0, chi, 2, 1));
         assertThrows(IllegalArgumentException.class, () -> IonisationBalance.sahaPrefactor(Double.NaN));
     }
+
+    @Test
+    void anIonisationEnergyInElectronVoltsIsRefusedWithTheLikelySlip() {
+        // 13.6 given as J (meant in eV): above 1e-13 J, more than any ion's (the bound's reason, from memory).
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> IonisationBalance.sahaRatio(12_000, 1e21, 13.6, 2, 1));
+        assertEquals("ionisation energy must be at most 1.0E-13 J (above every ion's), got 13.6 J; an energy in eV?"
+                + " multiply it by 1.602176634E-19 J/eV (13.6 eV = 2.179e-18 J)", e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> IonisationBalance.fractions(12_000, 1e21,
+                new double[] {109_678.77}, new double[] {2, 1}), "cm-1 given as J");
+        // The hydrogen-like uranium 1s binding, about 132 keV (from memory), is taken.
+        assertEquals(0.0, IonisationBalance.sahaRatio(1e4, 1e21, 132e3 * PhysicalConstants.E, 2, 1), 0.0);
+    }
 }

@@ -43,4 +43,18 @@ class BroadeningTest {
         assertEquals("lower-level decay rate must be finite and not negative, got -1.0 s^-1",
                 assertThrows(IllegalArgumentException.class, () -> Broadening.naturalFwhm(1e8, -1)).getMessage());
     }
+
+    @Test
+    void aMassInAtomicUnitsIsRefusedWithTheLikelySlip() {
+        // 1.00783 (hydrogen's mass in u) given as kg: above 1e-20 kg, far above any atom's.
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> Broadening.dopplerFwhm(4.5e14, 5000, 1.00783));
+        assertEquals("emitter mass must be 9.1093837015E-31 (an electron) to 1.0E-20 kg (far above any atom), got"
+                + " 1.00783 kg; a mass in u? multiply it by the atomic mass constant, 1.6605390666E-27 kg (1.00783 u ="
+                + " 1.674e-27 kg)", e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> Broadening.dopplerFwhm(4.5e14, 5000, 1e-31));
+        // An electron and a 300 u atom (the heaviest, common practice) are taken.
+        Broadening.dopplerFwhm(4.5e14, 5000, PhysicalConstants.ELECTRON_MASS.value());
+        Broadening.dopplerFwhm(4.5e14, 5000, 300 * PhysicalConstants.ATOMIC_MASS_CONSTANT.value());
+    }
 }

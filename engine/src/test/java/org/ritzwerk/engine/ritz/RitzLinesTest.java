@@ -247,7 +247,8 @@ class RitzLinesTest {
                 .add(X, "5s5p 3P1", 14504.3, 0.1, 2, null)
                 .add(X, "5s5p 1P1", 21698.5, 0.1, 2, null)
                 .build();
-        LineSet all = LineQuery.defaults().run(LineSources.none().withLevelList(list));
+        // The parity and J rules only: the intercombination line 3P1 - 1S0 passes.
+        LineSet all = LineQuery.defaults().run(LineSources.none().withLevelList(list, RitzLines.defaults()));
         assertEquals(2, all.size());
         assertEquals("5s5p 1P1 - 5s2 1S0", all.name(0), "by falling frequency");
         assertEquals("ritz", all.source(0).model());
@@ -259,8 +260,13 @@ class RitzLinesTest {
         assertEquals(1, all.lowerWeight(0).getAsInt());
         LineSet window = LineQuery.defaults()
                 .withWindow(Wavelength.ofNanometres(600, Medium.air()), Wavelength.ofNanometres(700, Medium.air()))
-                .run(LineSources.none().withLevelList(list));
+                .run(LineSources.none().withLevelList(list, RitzLines.defaults()));
         assertEquals(1, window.size());
         assertEquals("5s5p 3P1 - 5s2 1S0", window.name(0));
+        // By default the LS rules apply where both labels give a term (as DataLines and the lines
+        // command apply them): the spin-changing 3P1 - 1S0 is left out, the 1P1 - 1S0 line stays.
+        LineSet ls = LineQuery.defaults().run(LineSources.none().withLevelList(list));
+        assertEquals(List.of("5s5p 1P1 - 5s2 1S0"), List.of(ls.name(0)));
+        assertEquals(1, ls.size());
     }
 }

@@ -34,7 +34,7 @@ class RitzUserGuideTest {
             double vacuumNm = ritz.vacuumWavelengthNm(i);                   // wavelengthNm(i, Medium.air()) in air
             double uNm = ritz.wavelengthUncertaintyNm(i, Medium.vacuum()).orElseThrow();
         }
-        LineSet lines = LineQuery.defaults().run(LineSources.none().withLevels(levels));   // like any line source
+        LineSet lines = LineQuery.defaults().run(LineSources.none().withLevels(levels));   // like any source, LS rules
         // --- end ---
         assertEquals(4, ritz.size(), "3p-3d (104 cm-1), 2s-2p, 2p-3d, 2s-3p");
         assertEquals("1s3d 1D2", levels.label(ritz.upper(2)));

@@ -29,6 +29,27 @@ class RydbergPropertiesTest {
     private final AlkaliAtom rubidium = TestAtoms.rubidium();
 
     @Test
+    void theAtomTakesTheQueriesLimitsOnNAndTemperature() {
+        // The level query's limits (LevelQuery.MAX_N 2000, black body below 1e5 K) hold here too.
+        assertEquals(org.ritzwerk.engine.levels.LevelQuery.MAX_N, AlkaliAtom.MAX_N);
+        IllegalArgumentException n = assertThrows(IllegalArgumentException.class,
+                () -> rubidium.level(State.of(100_000, 0, 1)));
+        assertEquals("100000s 2S1/2 has n = 100000; states are computed for n up to 2000 (as the level and line"
+                + " queries take them)", n.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> rubidium.wavefunction(State.of(2001, 0, 1)));
+        assertTrue(rubidium.level(State.of(2000, 0, 1)).energyPerCm() > 0);
+        State s60 = State.of(60, 0, 1);
+        IllegalArgumentException hot = assertThrows(IllegalArgumentException.class,
+                () -> rubidium.effectiveLifetime(s60, 1e6));
+        assertTrue(hot.getMessage().startsWith("the black-body temperature must be 0 to below 100000.0 K"),
+                hot.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> rubidium.blackbodyRate(s60, 1e5));
+        State h10 = State.of(10, 0, 1);
+        assertTrue(hydrogen.effectiveLifetime(h10, 300) < hydrogen.radiativeLifetime(h10),
+                "black-body decays shorten the lifetime (common practice)");
+    }
+
+    @Test
     void numerovAgreesWithTheHydrogenClosedFormToOnePartIn1e5() {
         // All quantum defects zero and R_M = R_inf: the Coulomb-approximation functions are the exact
         // hydrogen functions, whose dipole integrals RadialIntegrals gives exactly (Gordon 1929).
