@@ -319,7 +319,8 @@ public final class LevelList implements DataSet {
                 throw new IllegalArgumentException("a level list needs kind levels, got " + info.kind().id());
             }
             if (unit.kind() != Kind.WAVENUMBER && unit.kind() != Kind.ENERGY) {
-                throw new IllegalArgumentException("level energies need a wavenumber or energy unit, got " + unit.symbol());
+                throw new IllegalArgumentException("level energies need a wavenumber or energy unit, got "
+                        + unit.symbol());
             }
         }
 

@@ -220,8 +220,8 @@ public final class LevelListFiles {
             if (j != null) {
                 Matcher m = J.matcher(j.strip());
                 if (!m.matches() || m.group(2) != null && Integer.parseInt(m.group(1)) % 2 == 0) {
-                    p.rowProblem(row, "j", "data.bad-j", "j must be an integer or an odd number over 2 (e.g. 3/2), got '"
-                            + j + "'");
+                    p.rowProblem(row, "j", "data.bad-j", "j must be an integer or an odd number over 2 (e.g. 3/2), "
+                            + "got '" + j + "'");
                 } else {
                     twoJ = m.group(2) != null ? Integer.parseInt(m.group(1)) : 2 * Integer.parseInt(m.group(1));
                 }

@@ -89,7 +89,8 @@ public final class RitzLevels {
             if (list.species(i).equals(species)) {
                 place[i] = b.labels.size();
                 OptionalDouble u = list.uncertainty(i);
-                b.add(list.label(i), list.energy(i) * factor[0], u.isPresent() ? u.getAsDouble() * factor[0] : Double.NaN,
+                b.add(list.label(i), list.energy(i) * factor[0],
+                        u.isPresent() ? u.getAsDouble() * factor[0] : Double.NaN,
                         list.twoJ(i));
             }
         }
