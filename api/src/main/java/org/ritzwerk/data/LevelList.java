@@ -1,8 +1,14 @@
 package org.ritzwerk.data;
 
 import java.util.Arrays;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
 import java.util.Objects;
 import java.util.OptionalDouble;
+import java.util.Set;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.quantity.Kind;
 import org.ritzwerk.quantity.Unit;
@@ -10,10 +16,22 @@ import org.ritzwerk.quantity.Unit;
 /**
  * A table of energy levels in columns: species, label (e.g. {@code 2p 2P3/2}), energy above the
  * species' ground state in the table's unit (a wavenumber or energy unit) with an optional
- * standard uncertainty, optional j and a note; and, where given, the correlation coefficients of
- * pairs of levels of one species ({@link #correlationCount()}): the covariance of the energies of
- * levels a and b is {@code r_ab u_a u_b} (common practice: the GUM, JCGM 100:2008, 5.2.2), and 0 for
- * a pair not given. Kept exactly as given. Immutable and thread-safe; equality is exact.
+ * standard uncertainty, optional j and a note; and, where given, how the energies of levels of one
+ * species are correlated, in either or both of two forms:
+ * <ul>
+ * <li>correlation coefficients of pairs of levels ({@link #correlationCount()}): pair a, b gets
+ * {@code r_ab u_a u_b};</li>
+ * <li>shared uncertainty components ({@link #shareCount()}): level i's energy depends on a named
+ * common error source c (a series limit, a calibration) with the signed standard-uncertainty
+ * contribution {@code v_ic} in the table's unit, so pair a, b gets {@code sum_c v_ac v_bc} over the
+ * components both have; each level's own, independent part is {@code u_i^2 - sum_c v_ic^2}, not
+ * negative.</li>
+ * </ul>
+ * The covariance of the energies of two levels a and b of one species is the sum of the two, where
+ * no pair gets both (a pair with a correlation shares no component): {@code V_ab = r_ab u_a u_b +
+ * sum_c v_ac v_bc}, with {@code V_aa = u_a^2} (common practice: the GUM, JCGM 100:2008, 5.2.2 for r,
+ * and 5.2 and F.1.2.3 for inputs common to two results); a pair with neither is uncorrelated, and
+ * levels of two species are. Kept exactly as given. Immutable and thread-safe; equality is exact.
  */
 public final class LevelList implements DataSet {
 
@@ -30,6 +48,12 @@ public final class LevelList implements DataSet {
     private final int[] correlationRow;
     private final int[] correlationOther;
     private final double[] correlation;
+    /** Shared uncertainty components: the row, the component's name and the contribution, in the order given. */
+    private final int[] shareRow;
+    private final String[] shareComponent;
+    private final double[] share;
+    /** The distinct component names, in the order first given. */
+    private final List<String> components;
 
     private LevelList(LevelList table, DataSetInfo info) {
         this.info = info;
@@ -44,6 +68,10 @@ public final class LevelList implements DataSet {
         this.correlationRow = table.correlationRow;
         this.correlationOther = table.correlationOther;
         this.correlation = table.correlation;
+        this.shareRow = table.shareRow;
+        this.shareComponent = table.shareComponent;
+        this.share = table.share;
+        this.components = table.components;
     }
 
     private LevelList(Builder b) {
@@ -59,6 +87,10 @@ public final class LevelList implements DataSet {
         this.correlationRow = Arrays.copyOf(b.correlationRow, b.correlations);
         this.correlationOther = Arrays.copyOf(b.correlationOther, b.correlations);
         this.correlation = Arrays.copyOf(b.correlation, b.correlations);
+        this.shareRow = Arrays.copyOf(b.shareRow, b.shares);
+        this.shareComponent = Arrays.copyOf(b.shareComponent, b.shares);
+        this.share = Arrays.copyOf(b.share, b.shares);
+        this.components = List.copyOf(new LinkedHashSet<>(Arrays.asList(shareComponent)));
     }
 
     /**
@@ -179,6 +211,41 @@ public final class LevelList implements DataSet {
         return correlation[k];
     }
 
+    /** @return the number of shared-uncertainty contributions given (rows of level, component and value) */
+    public int shareCount() {
+        return share.length;
+    }
+
+    /**
+     * @param k a contribution, 0 to {@link #shareCount()} - 1
+     * @return the row of its level
+     */
+    public int shareRow(int k) {
+        return shareRow[k];
+    }
+
+    /**
+     * @param k a contribution
+     * @return the name of the common error source it comes from
+     */
+    public String shareComponent(int k) {
+        return shareComponent[k];
+    }
+
+    /**
+     * @param k a contribution
+     * @return the signed standard-uncertainty contribution of that component to the level's energy, in
+     *         {@link #unit()}: its magnitude at most the level's uncertainty
+     */
+    public double share(int k) {
+        return share[k];
+    }
+
+    /** @return the distinct names of the shared uncertainty components, in the order first given */
+    public List<String> uncertaintyComponents() {
+        return components;
+    }
+
     @Override
     public boolean equals(Object o) {
         if (this == o) {
@@ -194,7 +261,9 @@ public final class LevelList implements DataSet {
                 && Arrays.equals(twoJ, that.twoJ) && Arrays.equals(rowNote, that.rowNote)
                 && Arrays.equals(correlationRow, that.correlationRow)
                 && Arrays.equals(correlationOther, that.correlationOther)
-                && Arrays.equals(correlation, that.correlation);
+                && Arrays.equals(correlation, that.correlation)
+                && Arrays.equals(shareRow, that.shareRow) && Arrays.equals(shareComponent, that.shareComponent)
+                && Arrays.equals(share, that.share);
     }
 
     @Override
@@ -206,6 +275,13 @@ public final class LevelList implements DataSet {
     public String toString() {
         return "LevelList[" + info.id() + ", " + size() + " levels in " + unit.symbol() + "]";
     }
+
+    /**
+     * How far a level's shared contributions squared may add up beyond its uncertainty squared, relative
+     * to it (1e-12): the rounding of decimal values, e.g. u = 0.005 made of 0.003 and 0.004 exactly. The
+     * level's independent part is then taken as 0.
+     */
+    public static final double SHARE_ROUNDING = 1e-12;
 
     /** Collects rows; not thread-safe. */
     public static final class Builder {
@@ -224,7 +300,16 @@ public final class LevelList implements DataSet {
         private int[] correlationOther = new int[16];
         private double[] correlation = new double[16];
         /** The pairs given, each as (smaller row, larger row). */
-        private final java.util.Set<Long> pairs = new java.util.HashSet<>();
+        private final Set<Long> pairs = new HashSet<>();
+        private int shares;
+        private int[] shareRow = new int[16];
+        private String[] shareComponent = new String[16];
+        private double[] share = new double[16];
+        /** Each component's species (a component is shared by levels of one species). */
+        private final Map<String, Species> componentSpecies = new HashMap<>();
+        /** Each row's components (row, then name) and the sum of its contributions squared. */
+        private final Map<Integer, Set<String>> rowComponents = new HashMap<>();
+        private final Map<Integer, Double> rowShareSquares = new HashMap<>();
 
         private Builder(DataSetInfo info, Unit unit, String note) {
             this.info = Objects.requireNonNull(info, "info");
@@ -234,7 +319,8 @@ public final class LevelList implements DataSet {
                 throw new IllegalArgumentException("a level list needs kind levels, got " + info.kind().id());
             }
             if (unit.kind() != Kind.WAVENUMBER && unit.kind() != Kind.ENERGY) {
-                throw new IllegalArgumentException("level energies need a wavenumber or energy unit, got " + unit.symbol());
+                throw new IllegalArgumentException("level energies need a wavenumber or energy unit, got "
+                        + unit.symbol());
             }
         }
 
@@ -335,20 +421,95 @@ public final class LevelList implements DataSet {
         }
 
         /**
+         * Gives a level added before a contribution from a shared uncertainty component: the covariance
+         * of two levels with the same component gets the product of their contributions, and the level's
+         * independent part is what is left of its variance, {@code u^2 - sum_c v_c^2}. A species with a
+         * component must give every one of its levels an uncertainty (checked by {@link #build()}).
+         *
+         * @param row       a level's row (0-based, in the order added)
+         * @param component the name of the common error source, not blank; one species' levels only
+         * @param value     the signed standard-uncertainty contribution, in the table's unit; finite
+         * @return this builder
+         * @throws IllegalArgumentException when the row is unknown, the name is blank, the value is not
+         *                                  finite, the level has no uncertainty or 0 (exact: it shares
+         *                                  nothing), it has that component already, the component belongs
+         *                                  to levels of another species, or the level's contributions
+         *                                  squared add up to more than its uncertainty squared (beyond a
+         *                                  rounding allowance of {@link #SHARE_ROUNDING} times u^2)
+         */
+        public Builder share(int row, String component, double value) {
+            if (row < 0 || row >= size) {
+                throw new IllegalArgumentException("shared uncertainty of row " + row + ": the table has " + size
+                        + " rows");
+            }
+            if (component == null || component.isBlank()) {
+                throw new IllegalArgumentException("shared uncertainty of '" + label[row]
+                        + "': the component's name must not be blank");
+            }
+            String what = "shared uncertainty '" + component + "' of '" + label[row] + "'";
+            if (!Double.isFinite(value)) {
+                throw new IllegalArgumentException(what + " must be finite, got " + value);
+            }
+            if (!(uncertainty[row] > 0)) {
+                throw new IllegalArgumentException(what + ": the level has "
+                        + (Double.isNaN(uncertainty[row]) ? "no uncertainty" : "uncertainty 0 (exact)")
+                        + ", so it shares no uncertainty component");
+            }
+            Species owner = componentSpecies.putIfAbsent(component, species[row]);
+            if (owner != null && !owner.equals(species[row])) {
+                throw new IllegalArgumentException(what + ": the component is shared by levels of "
+                        + owner.notation() + " already, and levels of two species have no covariance here");
+            }
+            if (!rowComponents.computeIfAbsent(row, r -> new HashSet<>()).add(component)) {
+                throw new IllegalArgumentException(what + " is given twice");
+            }
+            double squares = rowShareSquares.getOrDefault(row, 0.0) + value * value;
+            double variance = uncertainty[row] * uncertainty[row];
+            if (squares > variance * (1 + SHARE_ROUNDING)) {
+                throw new IllegalArgumentException(what + ": the level's contributions squared add up to "
+                        + squares + ", more than its uncertainty squared, " + variance);
+            }
+            rowShareSquares.put(row, squares);
+            if (shares == share.length) {
+                int capacity = 2 * shares;
+                shareRow = Arrays.copyOf(shareRow, capacity);
+                shareComponent = Arrays.copyOf(shareComponent, capacity);
+                share = Arrays.copyOf(share, capacity);
+            }
+            shareRow[shares] = row;
+            shareComponent[shares] = component;
+            share[shares] = value;
+            shares++;
+            return this;
+        }
+
+        /**
          * @return the immutable table
-         * @throws IllegalArgumentException when a species with a correlation has a level without an
-         *                                  uncertainty (naming it)
+         * @throws IllegalArgumentException when a species with a correlation or a shared component has a
+         *                                  level without an uncertainty, or a correlated pair shares a
+         *                                  component (its covariance would be given twice), naming them
          */
         public LevelList build() {
-            java.util.Set<Species> correlated = new java.util.HashSet<>();
+            Set<Species> correlated = new HashSet<>();
             for (int k = 0; k < correlations; k++) {
                 correlated.add(species[correlationRow[k]]);
+                Set<String> a = rowComponents.getOrDefault(correlationRow[k], Set.of());
+                for (String c : rowComponents.getOrDefault(correlationOther[k], Set.of())) {
+                    if (a.contains(c)) {
+                        throw new IllegalArgumentException("levels '" + label[correlationRow[k]] + "' and '"
+                                + label[correlationOther[k]] + "' share the uncertainty component '" + c
+                                + "' and have a correlation: their covariance would be given twice");
+                    }
+                }
+            }
+            for (int k = 0; k < shares; k++) {
+                correlated.add(species[shareRow[k]]);
             }
             for (int i = 0; i < size; i++) {
                 if (Double.isNaN(uncertainty[i]) && correlated.contains(species[i])) {
                     throw new IllegalArgumentException("level '" + label[i] + "' of " + species[i].notation()
-                            + " has no uncertainty, and levels of that species are correlated: a covariance needs "
-                            + "every level's uncertainty");
+                            + " has no uncertainty, and levels of that species are correlated (or share "
+                            + "uncertainty components): a covariance needs every level's uncertainty");
                 }
             }
             return new LevelList(this);

@@ -238,7 +238,10 @@ final class DataCommand implements Callable<Integer> {
                         org.ritzwerk.refdata.DataLines.checkLevels(levels);
                         what = levels.size() + " levels of " + levels.info().species().size() + " species in "
                                 + levels.unit().symbol() + (levels.correlationCount() == 0 ? ""
-                                        : ", " + levels.correlationCount() + " correlated pairs");
+                                        : ", " + levels.correlationCount() + " correlated pairs")
+                                + (levels.shareCount() == 0 ? "" : ", " + levels.uncertaintyComponents().size()
+                                        + " shared uncertainty components (" + levels.shareCount()
+                                        + " contributions)");
                     } else if (set instanceof QuantumDefects) {
                         QuantumDefects defects = (QuantumDefects) set;
                         what = defects.size() + " quantum-defect series of " + defects.species().notation();

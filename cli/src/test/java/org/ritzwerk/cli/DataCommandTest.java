@@ -57,6 +57,32 @@ class DataCommandTest {
     }
 
     @Test
+    void checkNamesTheSharedUncertaintiesOfALevelFileAndWhereOneIsBad(@TempDir Path dir) throws IOException {
+        // the built-in Sr I levels, shown and checked back: 17 components (make_strontium_levels.py: the limit, the
+        // singlet limit offset, d0, d2 and d4 of five series)
+        org.ritzwerk.data.LevelList sr = (org.ritzwerk.data.LevelList) DataRegistry.builtIn().load("levels-sr-i");
+        CliTest.Run show = CliTest.run("data", "show", "levels-sr-i", "--format", "csv");
+        assertEquals(0, show.code(), show.err());
+        Path file = dir.resolve("sr.csv");
+        Files.writeString(file, show.out(), StandardCharsets.UTF_8);
+        assertEquals(sr, org.ritzwerk.refdata.LevelListFiles.read(file));
+        CliTest.Run check = CliTest.run("data", "check", file.toString());
+        assertEquals(0, check.code(), check.err());
+        assertTrue(check.out().contains(": ok, " + sr.size() + " levels of 1 species in cm-1, 17 shared uncertainty "
+                + "components (" + sr.shareCount() + " contributions) (id levels-sr-i)"), check.out());
+        // a contribution larger than its level's uncertainty, reported at its line and column
+        Path bad = dir.resolve("bad.csv");
+        Files.writeString(bad, "# ritzwerk-levels 1\n# id: bad\n# title: t\n# source: s\n# provenance: computed\n"
+                + "# version: 1\n# energy-unit: cm-1\nspecies,label,energy,uncertainty\nHe I,1s2s 3S1,159855.97,0.002\n"
+                + "# shared-uncertainties\nspecies,label,component,value\nHe I,1s2s 3S1,limit,-0.003\n",
+                StandardCharsets.UTF_8);
+        CliTest.Run refused = CliTest.run("data", "check", bad.toString());
+        assertEquals(2, refused.code());
+        assertTrue(refused.err().contains(bad + ":12:4: column value: the contributions of level '1s2s 3S1' squared "
+                + "add up to 9.000e-06 here, more than its uncertainty 0.002 squared (line 9)"), refused.err());
+    }
+
+    @Test
     void aUserFileTakesPrecedenceAndABadOneIsReportedWhole(@TempDir Path dir) throws IOException {
         Path mine = dir.resolve("mine.csv");
         Files.writeString(mine, "# ritzwerk-lines 1\n# id: lamp-ne-i\n# title: my neon lamp\n# source: measured by me\n"

@@ -7,6 +7,7 @@ import java.util.EnumSet;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.ritzwerk.atom.Species;
@@ -59,6 +60,32 @@ import tools.jackson.databind.node.ObjectNode;
  * species,label,other,correlation
  * He I,1s2s 3S1,1s2p 3P2,0.35
  * </pre>
+ *
+ * <p>Shared uncertainty components (optional; the compact form where many levels depend on a few
+ * common error sources, such as a series limit): a line {@code # shared-uncertainties}, then rows
+ * {@code species,label,component,value} (all four required), each saying that the level's energy
+ * depends on the common error source named {@code component} with the signed standard-uncertainty
+ * contribution {@code value} (in the energy unit of the file). The covariance of two levels of one
+ * species is the sum over the components both have of the products of their values,
+ * {@code sum_c v_ic v_jc}, and each level's own, independent part is {@code u_i^2 - sum_c v_ic^2}
+ * (common practice: the GUM, JCGM 100:2008, 5.2 and F.1.2.3, inputs common to two results). In JSON
+ * the rows are objects under {@code sharedUncertainties}. Each level named must be a level of that
+ * species in the file with an uncertainty above 0; every level of a species with components needs
+ * an uncertainty; the component's name must not be blank, and one component is one species'; a level
+ * is given a component once; and a level's values squared may add up to its uncertainty squared but
+ * not more (beyond {@link LevelList#SHARE_ROUNDING} of it: the rounding of decimal values), refused at
+ * the row that makes them so. The matrix is positive semidefinite by construction.
+ * <pre>
+ * # shared-uncertainties
+ * species,label,component,value
+ * He I,1s2s 3S1,calibration,0.0015
+ * He I,1s2p 3P2,calibration,0.0015
+ * </pre>
+ * Both sections may appear, in either order, each once: the covariance of a pair is then
+ * {@code r u_a u_b + sum_c v_ac v_bc}, and a pair with a correlation must share no component (its
+ * covariance would be given twice; refused at the correlation's row); the positive semidefiniteness
+ * check of a species with correlations includes its shared parts. The writer writes the correlations
+ * first. Each problem names the file, line and column.
  * Stateless and thread-safe.
  */
 public final class LevelListFiles {
@@ -81,6 +108,14 @@ public final class LevelListFiles {
     private static final TabularFiles.Spec CORRELATION_SPEC = new TabularFiles.Spec(FORMAT, VERSION, "energy-unit",
             SPEC.headerKeys(), SPEC.requiredKeys(), CORRELATION_COLUMNS, CORRELATION_COLUMNS, List.of("correlation"),
             CORRELATIONS);
+    /** The line that starts the shared uncertainties in CSV (after {@code #}). */
+    public static final String SHARES = "shared-uncertainties";
+    /** The JSON key of the shared uncertainties. */
+    public static final String SHARES_JSON_KEY = "sharedUncertainties";
+    /** Columns of the shared uncertainties, in the order they are written. */
+    public static final List<String> SHARE_COLUMNS = List.of("species", "label", "component", "value");
+    private static final TabularFiles.Spec SHARE_SPEC = new TabularFiles.Spec(FORMAT, VERSION, "energy-unit",
+            SPEC.headerKeys(), SPEC.requiredKeys(), SHARE_COLUMNS, SHARE_COLUMNS, List.of("value"), SHARES_JSON_KEY);
     private static final Pattern J = Pattern.compile("(\\d{1,4})(/2)?");
 
     private LevelListFiles() {
@@ -115,12 +150,28 @@ public final class LevelListFiles {
      * @throws DataFileException with every problem found
      */
     public static LevelList readCsv(String text, String source) {
-        int marker = TabularFiles.sectionLine(text, CORRELATIONS);
-        if (marker < 0) {
-            return build(TabularFiles.parseCsv(SPEC, text, source), null);
+        List<Map.Entry<Integer, String>> markers = TabularFiles.sectionLines(text, Set.of(CORRELATIONS, SHARES));
+        if (markers.isEmpty()) {
+            return build(TabularFiles.parseCsv(SPEC, text, source), null, null);
         }
-        return build(TabularFiles.parseCsv(SPEC, TabularFiles.before(text, marker), source),
-                TabularFiles.parseCsvSection(CORRELATION_SPEC, text, source, marker));
+        TabularFiles.Parsed levels = TabularFiles.parseCsv(SPEC, TabularFiles.before(text, markers.get(0).getKey()),
+                source);
+        Map<String, TabularFiles.Parsed> sections = new HashMap<>();
+        Map<String, Integer> sectionLine = new HashMap<>();
+        for (int k = 0; k < markers.size(); k++) {
+            int line = markers.get(k).getKey();
+            String marker = markers.get(k).getValue();
+            Integer first = sectionLine.putIfAbsent(marker, line);
+            if (first != null) {
+                levels.problem(line, 1, "data.section-twice", "a second '# " + marker + "' section: give its rows "
+                        + "in the first (line " + first + ")", "");
+                continue;
+            }
+            int end = k + 1 < markers.size() ? markers.get(k + 1).getKey() : Integer.MAX_VALUE;
+            sections.put(marker, TabularFiles.parseCsvSection(marker.equals(CORRELATIONS) ? CORRELATION_SPEC
+                    : SHARE_SPEC, text, source, line, end));
+        }
+        return build(levels, sections.get(CORRELATIONS), sections.get(SHARES));
     }
 
     /**
@@ -131,11 +182,16 @@ public final class LevelListFiles {
      */
     public static LevelList readJson(String text, String source) {
         TabularFiles.Parsed correlations = new TabularFiles.Parsed(CORRELATION_SPEC, source, text, null);
-        return build(TabularFiles.parseJson(SPEC, text, source, null, correlations), correlations);
+        TabularFiles.Parsed shares = new TabularFiles.Parsed(SHARE_SPEC, source, text, null);
+        return build(TabularFiles.parseJson(SPEC, text, source, null, List.of(correlations, shares)), correlations,
+                shares);
     }
 
-    /** @param c the correlations as read, or null when the file has none */
-    private static LevelList build(TabularFiles.Parsed p, TabularFiles.Parsed c) {
+    /**
+     * @param c the correlations as read, or null when the file has none
+     * @param s the shared uncertainties as read, or null when the file has none
+     */
+    private static LevelList build(TabularFiles.Parsed p, TabularFiles.Parsed c, TabularFiles.Parsed s) {
         boolean sound = p.checkHeader();
         int before = p.problems.size();
         Provenance.Kind provenance = p.provenance();
@@ -147,6 +203,8 @@ public final class LevelListFiles {
         Map<String, Integer> seen = new HashMap<>();
         Map<String, Integer> rowOf = new HashMap<>();
         List<TabularFiles.Row> levelRows = new ArrayList<>();
+        List<Species> levelSpecies = new ArrayList<>();
+        List<Double> levelUncertainty = new ArrayList<>();
         List<Species> covered = new ArrayList<>();
         for (TabularFiles.Row row : p.rows) {
             int rowBefore = p.problems.size();
@@ -162,8 +220,8 @@ public final class LevelListFiles {
             if (j != null) {
                 Matcher m = J.matcher(j.strip());
                 if (!m.matches() || m.group(2) != null && Integer.parseInt(m.group(1)) % 2 == 0) {
-                    p.rowProblem(row, "j", "data.bad-j", "j must be an integer or an odd number over 2 (e.g. 3/2), got '"
-                            + j + "'");
+                    p.rowProblem(row, "j", "data.bad-j", "j must be an integer or an odd number over 2 (e.g. 3/2), "
+                            + "got '" + j + "'");
                 } else {
                     twoJ = m.group(2) != null ? Integer.parseInt(m.group(1)) : 2 * Integer.parseInt(m.group(1));
                 }
@@ -191,9 +249,25 @@ public final class LevelListFiles {
             builder.add(species, label, energy, uncertainty, twoJ, note);
             rowOf.put(species.notation() + "|" + label, levelRows.size());
             levelRows.add(row);
+            levelSpecies.add(species);
+            levelUncertainty.add(uncertainty);
         }
-        if (c != null) {
-            correlate(p, c, builder, speciesCache, rowOf, levelRows);
+        if (c != null || s != null) {
+            Levels levels = new Levels(p, levelRows, levelSpecies, levelUncertainty, rowOf, speciesCache);
+            List<Share> shares = s == null ? List.of() : shares(levels, s);
+            List<Pair> pairs = c == null ? List.of() : pairs(levels, c);
+            if ((c == null || c.problems.isEmpty()) && (s == null || s.problems.isEmpty())) {
+                covariance(levels, c, shares, pairs);
+            }
+            for (TabularFiles.Parsed section : new TabularFiles.Parsed[] {s, c}) {
+                if (section != null) {
+                    p.problems.addAll(section.problems);
+                }
+            }
+            if (p.problems.isEmpty()) {
+                shares.forEach(share -> builder.share(share.level, share.component, share.value));
+                pairs.forEach(pair -> builder.correlate(pair.level, pair.other, pair.r));
+            }
         }
         p.throwIfAny();
         LevelList table = builder.build();
@@ -202,46 +276,130 @@ public final class LevelListFiles {
                 info.provenance(), covered));
     }
 
-    /**
-     * Reads the correlations into the builder, every problem into {@code p}: unknown levels, a level
-     * with itself, a pair given twice (asymmetric when the values differ), a coefficient outside
-     * [-1, 1], a level without an uncertainty above 0, and a covariance that is not positive
-     * semidefinite.
-     */
-    private static void correlate(TabularFiles.Parsed p, TabularFiles.Parsed c, LevelList.Builder builder,
-            Map<String, Species> speciesCache, Map<String, Integer> rowOf, List<TabularFiles.Row> levelRows) {
-        int before = p.problems.size();
-        Map<Long, TabularFiles.Row> pairs = new HashMap<>();
-        Map<Long, Double> values = new HashMap<>();
-        double[] uncertainty = new double[levelRows.size()];   // each level's, read once (NaN: none)
-        for (int i = 0; i < uncertainty.length; i++) {
-            uncertainty[i] = p.number(levelRows.get(i), "uncertainty", false);
+    /** The good level rows of a file, each with its species and uncertainty (NaN: none), and their index. */
+    private record Levels(TabularFiles.Parsed p, List<TabularFiles.Row> rows, List<Species> species,
+            List<Double> uncertainty, Map<String, Integer> rowOf, Map<String, Species> speciesCache) {
+
+        /**
+         * @return the level a column of a section's row names (a level of the row's species in the
+         *         file), or -1 when it does not (reported) or the column is empty (reported)
+         */
+        int level(TabularFiles.Parsed section, TabularFiles.Row row, Species of, String column) {
+            String label = section.text(row, column);
+            if (label == null) {
+                if (row.values().get(column) == null) {
+                    section.rowProblem(row, column, "data.missing-value", column + " is required");
+                }
+                return -1;
+            }
+            if (of == null) {
+                return -1;
+            }
+            Integer at = rowOf.get(of.notation() + "|" + label);
+            if (at == null) {
+                section.rowProblem(row, column, "data.unknown-level", "no level '" + label + "' of " + of.notation()
+                        + " in this file (or its row has a problem)");
+                return -1;
+            }
+            return at;
         }
-        List<int[]> given = new ArrayList<>();
-        List<TabularFiles.Row> givenRows = new ArrayList<>();
-        List<Double> givenValues = new ArrayList<>();
+
+        /** @return what a level's uncertainty is, for a message: "no uncertainty" or "uncertainty 0" */
+        String exactness(int level) {
+            return rows.get(level).values().get("uncertainty") == null ? "no uncertainty" : "uncertainty 0";
+        }
+
+        String label(int level) {
+            return String.valueOf(rows.get(level).values().get("label"));
+        }
+    }
+
+    /** A shared-uncertainty contribution as read: level, component, value and its row. */
+    private record Share(int level, String component, double value, TabularFiles.Row row) {
+    }
+
+    /** A correlation as read: the two levels, the coefficient and its row. */
+    private record Pair(int level, int other, double r, TabularFiles.Row row) {
+    }
+
+    /**
+     * Reads the shared uncertainties, every problem into {@code s}: an unknown level, a missing or
+     * blank component, a value that is not a finite number, a level without an uncertainty above 0, a
+     * level given a component twice, a component of levels of two species, and contributions whose
+     * squares add up to more than the level's uncertainty squared (at the row that makes them so).
+     */
+    private static List<Share> shares(Levels levels, TabularFiles.Parsed s) {
+        List<Share> shares = new ArrayList<>();
+        Map<String, TabularFiles.Row> firstOf = new HashMap<>();         // level|component -> its first row
+        Map<String, Integer> componentLevel = new HashMap<>();           // component -> a level that has it
+        Map<Integer, Double> squares = new HashMap<>();
+        java.util.Set<Integer> over = new java.util.HashSet<>();
+        for (TabularFiles.Row row : s.rows) {
+            int rowBefore = s.problems.size();
+            Species species = s.species(row, levels.speciesCache());
+            int level = levels.level(s, row, species, "label");
+            String component = s.text(row, "component");
+            if (component == null) {
+                if (row.values().get("component") == null) {
+                    s.rowProblem(row, "component", "data.missing-value", "component is required: the name of the "
+                            + "common error source");
+                }
+            } else if (component.isBlank()) {
+                s.rowProblem(row, "component", "data.missing-value", "component's name is empty (blank)");
+            }
+            double value = signed(s, row, "value");
+            if (s.problems.size() != rowBefore) {
+                continue;
+            }
+            TabularFiles.Row levelRow = levels.rows().get(level);
+            double u = levels.uncertainty().get(level);
+            if (!(u > 0)) {
+                s.rowProblem(row, "label", "data.bad-share", "level '" + levels.label(level) + "' (line "
+                        + levelRow.line() + ") has " + levels.exactness(level) + ": only levels with an uncertainty "
+                        + "above 0 share uncertainty components");
+                continue;
+            }
+            TabularFiles.Row first = firstOf.putIfAbsent(level + "|" + component, row);
+            if (first != null) {
+                s.rowProblem(row, "component", "data.duplicate", "level '" + levels.label(level) + "' is given "
+                        + "component '" + component + "' on line " + first.line() + " already");
+                continue;
+            }
+            Integer other = componentLevel.putIfAbsent(component, level);
+            if (other != null && !levels.species().get(other).equals(species)) {
+                s.rowProblem(row, "component", "data.bad-share", "component '" + component + "' is shared by "
+                        + levels.species().get(other).notation() + " levels already (level '" + levels.label(other)
+                        + "'), and levels of two species have no covariance here: name this one apart");
+                continue;
+            }
+            double sum = squares.getOrDefault(level, 0.0) + value * value;
+            squares.put(level, sum);
+            if (sum > u * u * (1 + LevelList.SHARE_ROUNDING) && over.add(level)) {
+                s.rowProblem(row, "value", "data.share-too-large", String.format(java.util.Locale.ROOT,
+                        "the contributions of level '%s' squared add up to %.4g here, more than its uncertainty "
+                        + "%s squared (line %d): a level's shared parts cannot exceed its whole uncertainty, "
+                        + "its independent part u^2 - sum v^2 would be negative", levels.label(level), sum,
+                        levelRow.values().get("uncertainty"), levelRow.line()));
+                continue;
+            }
+            shares.add(new Share(level, component, value, row));
+        }
+        return shares;
+    }
+
+    /**
+     * Reads the correlations, every problem into {@code c}: unknown levels, a level with itself, a pair
+     * given twice (asymmetric when the values differ), a coefficient outside [-1, 1] and a level without
+     * an uncertainty above 0.
+     */
+    private static List<Pair> pairs(Levels levels, TabularFiles.Parsed c) {
+        Map<Long, Pair> given = new HashMap<>();
+        List<Pair> pairs = new ArrayList<>();
         for (TabularFiles.Row row : c.rows) {
             int rowBefore = c.problems.size();
-            Species species = c.species(row, speciesCache);
-            int[] level = new int[2];
+            Species species = c.species(row, levels.speciesCache());
             String[] columns = {"label", "other"};
-            for (int k = 0; k < 2; k++) {
-                String label = c.text(row, columns[k]);
-                level[k] = -1;
-                if (label == null) {
-                    if (row.values().get(columns[k]) == null) {
-                        c.rowProblem(row, columns[k], "data.missing-value", columns[k] + " is required");
-                    }
-                } else if (species != null) {
-                    Integer at = rowOf.get(species.notation() + "|" + label);
-                    if (at == null) {
-                        c.rowProblem(row, columns[k], "data.unknown-level", "no level '" + label + "' of "
-                                + species.notation() + " in this file (or its row has a problem)");
-                    } else {
-                        level[k] = at;
-                    }
-                }
-            }
+            int[] level = {levels.level(c, row, species, "label"), levels.level(c, row, species, "other")};
             double r = signed(c, row, "correlation");
             if (!Double.isNaN(r) && !(r >= -1 && r <= 1)) {
                 c.rowProblem(row, "correlation", "data.out-of-range", "a correlation coefficient is from -1 to 1, got "
@@ -257,12 +415,9 @@ public final class LevelListFiles {
             }
             boolean exact = false;
             for (int k = 0; k < 2; k++) {
-                Object u = levelRows.get(level[k]).values().get("uncertainty");
-                TabularFiles.Row levelRow = levelRows.get(level[k]);
-                double sigma = uncertainty[level[k]];
-                if (!(sigma > 0)) {
-                    c.rowProblem(row, columns[k], "data.bad-correlation", "level '" + levelRow.values().get("label")
-                            + "' (line " + levelRow.line() + ") has " + (u == null ? "no uncertainty" : "uncertainty 0")
+                if (!(levels.uncertainty().get(level[k]) > 0)) {
+                    c.rowProblem(row, columns[k], "data.bad-correlation", "level '" + levels.label(level[k])
+                            + "' (line " + levels.rows().get(level[k]).line() + ") has " + levels.exactness(level[k])
                             + ": only levels with an uncertainty above 0 are correlated");
                     exact = true;
                 }
@@ -271,97 +426,137 @@ public final class LevelListFiles {
                 continue;
             }
             long key = ((long) Math.min(level[0], level[1]) << 32) | Math.max(level[0], level[1]);
-            TabularFiles.Row first = pairs.putIfAbsent(key, row);
+            Pair pair = new Pair(level[0], level[1], r, row);
+            Pair first = given.putIfAbsent(key, pair);
             if (first != null) {
-                double old = values.get(key);
-                c.rowProblem(row, "correlation", "data.duplicate", old == r
-                        ? "the correlation of these two levels is given on line " + first.line() + " already"
-                        : "the correlation of these two levels is " + old + " on line " + first.line() + " and " + r
-                                + " here: the matrix would not be symmetric");
+                c.rowProblem(row, "correlation", "data.duplicate", first.r == r
+                        ? "the correlation of these two levels is given on line " + first.row.line() + " already"
+                        : "the correlation of these two levels is " + first.r + " on line " + first.row.line()
+                                + " and " + r + " here: the matrix would not be symmetric");
                 continue;
             }
-            values.put(key, r);
-            given.add(level);
-            givenRows.add(row);
-            givenValues.add(r);
+            pairs.add(pair);
         }
-        p.problems.addAll(c.problems);
-        c.problems.clear();
-        if (p.problems.size() != before) {
-            return;
-        }
+        return pairs;
+    }
+
+    /**
+     * The checks of the whole covariance, once every row is sound: every level of a species with a
+     * correlation or a shared component has an uncertainty; a correlated pair shares no component
+     * (its covariance would be given twice); and the covariance of a species with correlations (plus
+     * its shared parts) is positive semidefinite. A species with shared components only is: its matrix
+     * is the independent parts on the diagonal plus a sum of outer products.
+     */
+    private static void covariance(Levels levels, TabularFiles.Parsed c, List<Share> shares, List<Pair> pairs) {
+        TabularFiles.Parsed p = levels.p();
         // every level of a correlated species needs an uncertainty
         Map<Species, List<Integer>> bySpecies = new java.util.LinkedHashMap<>();
-        for (int[] pair : given) {
-            bySpecies.putIfAbsent(levelSpecies(levelRows, pair[0], speciesCache), new ArrayList<>());
+        Map<Species, TabularFiles.Row> firstRow = new HashMap<>();
+        for (Share share : shares) {
+            bySpecies.putIfAbsent(levels.species().get(share.level), new ArrayList<>());
+            firstRow.putIfAbsent(levels.species().get(share.level), share.row);
         }
-        for (int i = 0; i < levelRows.size(); i++) {
-            List<Integer> rows = bySpecies.get(levelSpecies(levelRows, i, speciesCache));
+        for (Pair pair : pairs) {
+            bySpecies.putIfAbsent(levels.species().get(pair.level), new ArrayList<>());
+            firstRow.putIfAbsent(levels.species().get(pair.level), pair.row);
+        }
+        int before = p.problems.size();
+        for (int i = 0; i < levels.rows().size(); i++) {
+            List<Integer> rows = bySpecies.get(levels.species().get(i));
             if (rows != null) {
                 rows.add(i);
-                if (levelRows.get(i).values().get("uncertainty") == null) {
-                    p.rowProblem(levelRows.get(i), "uncertainty", "data.missing-value", "uncertainty is required: "
-                            + "levels of this species are correlated (line " + givenRows.get(0).line() + " on), and a "
-                            + "covariance needs every level's uncertainty");
+                if (Double.isNaN(levels.uncertainty().get(i))) {
+                    p.rowProblem(levels.rows().get(i), "uncertainty", "data.missing-value", "uncertainty is required: "
+                            + "levels of this species are correlated (line " + firstRow.get(levels.species().get(i))
+                                    .line() + " on), and a covariance needs every level's uncertainty");
                 }
             }
         }
         if (p.problems.size() != before) {
             return;
         }
+        Map<Integer, Map<String, Double>> componentsOf = new HashMap<>();
+        for (Share share : shares) {
+            componentsOf.computeIfAbsent(share.level, l -> new HashMap<>()).put(share.component, share.value);
+        }
+        for (Pair pair : pairs) {
+            Map<String, Double> a = componentsOf.getOrDefault(pair.level, Map.of());
+            for (String component : componentsOf.getOrDefault(pair.other, Map.of()).keySet()) {
+                if (a.containsKey(component)) {
+                    c.rowProblem(pair.row, "other", "data.bad-correlation", "levels '" + levels.label(pair.level)
+                            + "' and '" + levels.label(pair.other) + "' share the uncertainty component '" + component
+                            + "' (" + SHARES + " section): their covariance comes from there, and a correlation "
+                            + "would give it twice");
+                    break;
+                }
+            }
+        }
+        if (c == null || !c.problems.isEmpty()) {
+            return;     // no correlations: shared components only, positive semidefinite by construction
+        }
         for (Map.Entry<Species, List<Integer>> e : bySpecies.entrySet()) {
             List<Integer> rows = e.getValue();
+            List<Pair> own = new ArrayList<>();
+            for (Pair pair : pairs) {
+                if (levels.species().get(pair.level).equals(e.getKey())) {
+                    own.add(pair);
+                }
+            }
+            if (own.isEmpty()) {
+                continue;   // shared components only: positive semidefinite by construction
+            }
             Map<Integer, Integer> place = new HashMap<>();
             double[] sigma = new double[rows.size()];
             for (int k = 0; k < rows.size(); k++) {
                 place.put(rows.get(k), k);
-                sigma[k] = uncertainty[rows.get(k)];
+                sigma[k] = levels.uncertainty().get(rows.get(k));
             }
             double[][] v = new double[rows.size()][rows.size()];
             for (int k = 0; k < rows.size(); k++) {
                 v[k][k] = sigma[k] * sigma[k];
             }
-            for (int g = 0; g < given.size(); g++) {
-                Integer a = place.get(given.get(g)[0]);
-                Integer b = place.get(given.get(g)[1]);
-                if (a != null) {
-                    v[a][b] = givenValues.get(g) * sigma[a] * sigma[b];
-                    v[b][a] = v[a][b];
+            for (Pair pair : own) {
+                int a = place.get(pair.level);
+                int b = place.get(pair.other);
+                v[a][b] = pair.r * sigma[a] * sigma[b];
+                v[b][a] = v[a][b];
+            }
+            Map<String, List<Share>> byComponent = new HashMap<>();
+            for (Share share : shares) {
+                if (place.containsKey(share.level)) {
+                    byComponent.computeIfAbsent(share.component, k -> new ArrayList<>()).add(share);
+                }
+            }
+            for (List<Share> members : byComponent.values()) {
+                for (int x = 0; x < members.size(); x++) {
+                    for (int y = x + 1; y < members.size(); y++) {
+                        int a = place.get(members.get(x).level);
+                        int b = place.get(members.get(y).level);
+                        v[a][b] += members.get(x).value * members.get(y).value;
+                        v[b][a] = v[a][b];
+                    }
                 }
             }
             int at = RitzLevels.firstIndefiniteLevel(v);
             if (at >= 0) {
                 // the last row pairing that level with one before it (one exists, else the block stays semidefinite)
-                int culprit = -1;
-                for (int g = 0; g < given.size(); g++) {
-                    Integer a = place.get(given.get(g)[0]);
-                    Integer b = place.get(given.get(g)[1]);
-                    if (a != null && (a == at && b < at || b == at && a < at)) {
-                        culprit = g;
+                Pair culprit = own.get(0);
+                for (Pair pair : own) {
+                    int a = place.get(pair.level);
+                    int b = place.get(pair.other);
+                    if (a == at && b < at || b == at && a < at) {
+                        culprit = pair;
                     }
                 }
-                String label = String.valueOf(levelRows.get(rows.get(at)).values().get("label"));
-                TabularFiles.Row row = givenRows.get(Math.max(culprit, 0));
-                c.rowProblem(row, "correlation", "data.not-semidefinite", "the correlations of level '" + label
-                        + "' (line " + levelRows.get(rows.get(at)).line() + ") with the " + e.getKey().notation()
+                String label = levels.label(rows.get(at));
+                c.rowProblem(culprit.row, "correlation", "data.not-semidefinite", "the correlations of level '" + label
+                        + "' (line " + levels.rows().get(rows.get(at)).line() + ") with the " + e.getKey().notation()
                         + " levels before it make a covariance matrix that is not positive semidefinite (no set of "
                         + "energies has it; a variance of some difference of levels would be negative): check this "
                         + "row and the other correlations of '" + label + "'");
             }
         }
-        if (!c.problems.isEmpty()) {
-            p.problems.addAll(c.problems);
-            return;
-        }
-        for (int g = 0; g < given.size(); g++) {
-            builder.correlate(given.get(g)[0], given.get(g)[1], givenValues.get(g));
-        }
     }
-
-    private static Species levelSpecies(List<TabularFiles.Row> levelRows, int i, Map<String, Species> cache) {
-        return cache.get((String) levelRows.get(i).values().get("species"));
-    }
-
     /** @return a number that may be negative, NaN when absent or bad (then reported) */
     private static double signed(TabularFiles.Parsed c, TabularFiles.Row row, String column) {
         Object value = row.values().get(column);
@@ -397,17 +592,26 @@ public final class LevelListFiles {
             rows.add(new String[] {table.species(i).notation(), table.label(i), Double.toString(table.energy(i)),
                 TabularFiles.csv(table.uncertainty(i)), j(table.twoJ(i)), TabularFiles.csv(table.rowNote(i))});
         }
-        String text = TabularFiles.writeCsv(SPEC, headerOf(table), rows);
-        if (table.correlationCount() == 0) {
-            return text;
+        StringBuilder text = new StringBuilder(TabularFiles.writeCsv(SPEC, headerOf(table), rows));
+        if (table.correlationCount() > 0) {
+            List<String[]> correlations = new ArrayList<>();
+            for (int k = 0; k < table.correlationCount(); k++) {
+                int a = table.correlationRow(k);
+                correlations.add(new String[] {table.species(a).notation(), table.label(a),
+                    table.label(table.correlationOtherRow(k)), Double.toString(table.correlation(k))});
+            }
+            text.append(TabularFiles.writeCsvSection(CORRELATIONS, CORRELATION_SPEC, correlations));
         }
-        List<String[]> correlations = new ArrayList<>();
-        for (int k = 0; k < table.correlationCount(); k++) {
-            int a = table.correlationRow(k);
-            correlations.add(new String[] {table.species(a).notation(), table.label(a),
-                table.label(table.correlationOtherRow(k)), Double.toString(table.correlation(k))});
+        if (table.shareCount() > 0) {
+            List<String[]> shares = new ArrayList<>();
+            for (int k = 0; k < table.shareCount(); k++) {
+                int a = table.shareRow(k);
+                shares.add(new String[] {table.species(a).notation(), table.label(a), table.shareComponent(k),
+                    Double.toString(table.share(k))});
+            }
+            text.append(TabularFiles.writeCsvSection(SHARES, SHARE_SPEC, shares));
         }
-        return text + TabularFiles.writeCsvSection(CORRELATIONS, CORRELATION_SPEC, correlations);
+        return text.toString();
     }
 
     /**
@@ -436,7 +640,20 @@ public final class LevelListFiles {
             row.put("correlation", table.correlation(k));
             correlations.add(row);
         }
-        return TabularFiles.writeJson(SPEC, headerOf(table), rows, CORRELATION_SPEC, correlations);
+        List<ObjectNode> shares = new ArrayList<>();
+        for (int k = 0; k < table.shareCount(); k++) {
+            int a = table.shareRow(k);
+            ObjectNode row = TabularFiles.newRow();
+            row.put("species", table.species(a).notation());
+            row.put("label", table.label(a));
+            row.put("component", table.shareComponent(k));
+            row.put("value", table.share(k));
+            shares.add(row);
+        }
+        Map<TabularFiles.Spec, List<ObjectNode>> sections = new java.util.LinkedHashMap<>();
+        sections.put(CORRELATION_SPEC, correlations);
+        sections.put(SHARE_SPEC, shares);
+        return TabularFiles.writeJson(SPEC, headerOf(table), rows, sections);
     }
 
     /** @return j as the file writes it: {@code 3/2} for a half-integer, {@code 2} for an integer, empty for none */

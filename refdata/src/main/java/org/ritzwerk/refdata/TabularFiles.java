@@ -549,22 +549,24 @@ final class TabularFiles {
     }
 
     /**
-     * Where a CSV file's second table starts: the first line that reads {@code # <marker>} (spaces
-     * around either part ignored), after which come its row of column names and its rows.
+     * Where a CSV file's further tables start: every line that reads {@code # <marker>} for one of
+     * the markers (spaces around either part ignored), after which come the section's row of column
+     * names and its rows, up to the next such line or the end.
      *
-     * @param text   the whole file
-     * @param marker the section's name, e.g. {@code correlations}
-     * @return the 1-based line of the marker, or -1 when the file has none
+     * @param text    the whole file
+     * @param markers the sections' names, e.g. {@code correlations}
+     * @return the 1-based lines of the markers found, in file order, each with its marker
      */
-    static int sectionLine(String text, String marker) {
+    static List<Map.Entry<Integer, String>> sectionLines(String text, Set<String> markers) {
         Parsed lines = new Parsed(null, "", text, null);
+        List<Map.Entry<Integer, String>> found = new ArrayList<>();
         for (int l = 1; l <= lines.lineCount(); l++) {
             String stripped = lines.raw(l).strip();
-            if (stripped.startsWith("#") && stripped.substring(1).strip().equals(marker)) {
-                return l;
+            if (stripped.startsWith("#") && markers.contains(stripped.substring(1).strip())) {
+                found.add(Map.entry(l, stripped.substring(1).strip()));
             }
         }
-        return -1;
+        return found;
     }
 
     /**
@@ -578,21 +580,23 @@ final class TabularFiles {
     }
 
     /**
-     * Reads the second table of a CSV file, after its marker line ({@link #sectionLine}): a row of
-     * column names, then rows, with the lines numbered as in the whole file. The spec's header keys
-     * are not read (the file's header is the first table's).
+     * Reads a further table of a CSV file, after its marker line ({@link #sectionLines}) and before
+     * the line {@code endLine}: a row of column names, then rows, with the lines numbered as in the
+     * whole file. The spec's header keys are not read (the file's header is the first table's).
      *
      * @param spec       the section's columns (its format and version are the file's)
      * @param text       the whole file
      * @param source     file name for messages
      * @param markerLine the marker's line
+     * @param endLine    the line after the section's last (the next marker's), or beyond the last line
      * @return the rows and problems
      */
-    static Parsed parseCsvSection(Spec spec, String text, String source, int markerLine) {
+    static Parsed parseCsvSection(Spec spec, String text, String source, int markerLine, int endLine) {
         Parsed p = new Parsed(spec, source, text, null);
         // the lines up to the marker become empty lines, so the parser's line numbers stay the file's
-        String rest = "\n".repeat(markerLine) + (markerLine < p.lineCount() ? text.substring(p.lineStarts[markerLine])
-                : "");
+        int end = endLine <= p.lineCount() ? p.lineStarts[endLine - 1] : text.length();
+        String rest = "\n".repeat(markerLine) + (markerLine < p.lineCount() ? text.substring(p.lineStarts[markerLine],
+                Math.max(end, p.lineStarts[markerLine])) : "");
         try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(rest)) {
             readRows(p, iterator, markerLine);
         } catch (JacksonException e) {
@@ -894,20 +898,22 @@ final class TabularFiles {
      *             the rows in {@link Parsed#rows}
      */
     static Parsed parseJson(Spec spec, String text, String source, RowSink sink) {
-        return parseJson(spec, text, source, sink, null);
+        return parseJson(spec, text, source, sink, List.of());
     }
 
     /**
-     * @param section a second table's rows, read from its own array key ({@link Spec#arrayKey()} of
-     *                the section's spec), or null when the format has none; its problems stay in it
+     * @param sections further tables' rows, each read from its own array key ({@link Spec#arrayKey()}
+     *                 of the section's spec); none when the format has none; their problems stay in them
      */
-    static Parsed parseJson(Spec spec, String text, String source, RowSink sink, Parsed section) {
+    static Parsed parseJson(Spec spec, String text, String source, RowSink sink, List<Parsed> sections) {
         Parsed p = new Parsed(spec, source, text, sink);
         List<String> jsonKeys = new ArrayList<>(List.of("format", "formatVersion"));
         spec.headerKeys().forEach(key -> jsonKeys.add(spec.jsonKey(key)));
         jsonKeys.add(spec.arrayKey());
-        if (section != null) {
+        Map<String, Parsed> sectionOf = new HashMap<>();
+        for (Parsed section : sections) {
             jsonKeys.add(section.spec.arrayKey());
+            sectionOf.put(section.spec.arrayKey(), section);
             Map<String, Integer> sectionIndex = new HashMap<>();
             section.spec.columns().forEach(c -> sectionIndex.put(c, 0));
             section.columnIndex = sectionIndex;
@@ -941,7 +947,8 @@ final class TabularFiles {
                     }
                     continue;
                 }
-                if (section != null && name.equals(section.spec.arrayKey())) {
+                Parsed section = sectionOf.get(name);
+                if (section != null) {
                     if (parser.currentToken() != JsonToken.START_ARRAY) {
                         p.problem(line, 0, "data.json-shape", "'" + name + "' must be an array", "");
                         parser.skipChildren();
@@ -1069,25 +1076,27 @@ final class TabularFiles {
     }
 
     static String writeJson(Spec spec, Map<String, String> header, List<ObjectNode> rows) {
-        return writeJson(spec, header, rows, null, List.of());
+        return writeJson(spec, header, rows, Map.of());
     }
 
     /**
-     * @param section     the spec of a second table, written under its array key when it has rows
-     * @param sectionRows its rows (none: no key written)
+     * @param sections further tables in the order written, each its spec and rows, written under the
+     *                 spec's array key when it has rows (none: no key written)
      */
-    static String writeJson(Spec spec, Map<String, String> header, List<ObjectNode> rows, Spec section,
-            List<ObjectNode> sectionRows) {
+    static String writeJson(Spec spec, Map<String, String> header, List<ObjectNode> rows,
+            Map<Spec, List<ObjectNode>> sections) {
         ObjectNode root = JSON.createObjectNode();
         root.put("format", spec.format());
         root.put("formatVersion", spec.version());
         header.forEach((key, value) -> root.put(spec.jsonKey(key), value));
         ArrayNode array = root.putArray(spec.arrayKey());
         rows.forEach(array::add);
-        if (section != null && !sectionRows.isEmpty()) {
-            ArrayNode more = root.putArray(section.arrayKey());
-            sectionRows.forEach(more::add);
-        }
+        sections.forEach((section, sectionRows) -> {
+            if (!sectionRows.isEmpty()) {
+                ArrayNode more = root.putArray(section.arrayKey());
+                sectionRows.forEach(more::add);
+            }
+        });
         return JSON.writerWithDefaultPrettyPrinter().writeValueAsString(root) + "\n";
     }
 

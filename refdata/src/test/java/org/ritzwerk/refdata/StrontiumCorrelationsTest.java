@@ -13,10 +13,11 @@ import org.ritzwerk.engine.ritz.RitzTransitions;
 /**
  * The built-in Sr-88 I Rydberg levels share the series limit's uncertainty (and, for the singlet
  * series, the 0.003 cm-1 limit offset of their paper's fit, {@code limit_extra_unc_cm} in
- * levels/rydberg-ritz-sr-88.csv), which their correlations carry: a line between two Rydberg levels of
- * two series has the shared parts cancelled, a line to a low level keeps its uncertainty. The expected
+ * levels/rydberg-ritz-sr-88.csv), which the list's shared uncertainty components carry: a line between
+ * two Rydberg levels of two series has the shared parts cancelled, a line to a low level keeps its
+ * uncertainty. The expected
  * values are computed here from the levels' stated uncertainties and the shared parts alone (two series
- * share nothing else: their defect parameters are independent), not from the correlations in the file.
+ * share nothing else: their defect parameters are independent), not from the components in the file.
  */
 class StrontiumCorrelationsTest {
 
@@ -47,27 +48,39 @@ class StrontiumCorrelationsTest {
     }
 
     @Test
-    void theBuiltInListCarriesCorrelationsOfItsRydbergLevelsOnly() {
+    void theBuiltInListCarriesSharedUncertaintiesOfItsRydbergLevelsOnly() {
         LevelList list = DataContext.builtIn().levelList(SR).orElseThrow();
-        int rydberg = list.size() - 3;   // all but 5s2 1S0, 5s5p 3P1 and 5s5p 1P1
-        assertEquals(rydberg * (rydberg - 1) / 2, list.correlationCount());
-        for (int k = 0; k < list.correlationCount(); k++) {
-            assertTrue(list.label(list.correlationRow(k)).startsWith("5s.")
-                    && list.label(list.correlationOtherRow(k)).startsWith("5s."));
+        assertEquals(0, list.correlationCount());
+        // components (make_strontium_levels.py): the limit, the singlet limit offset, and d0, d2, d4 of each of
+        // the five series used (rydberg-ritz-sr-88.csv, use = yes)
+        assertEquals(1 + 1 + 5 * 3, list.uncertaintyComponents().size(), list.uncertaintyComponents().toString());
+        java.util.Map<Integer, Double> squares = new java.util.HashMap<>();
+        java.util.Set<Integer> withLimit = new java.util.HashSet<>();
+        for (int k = 0; k < list.shareCount(); k++) {
+            int row = list.shareRow(k);
+            assertTrue(list.label(row).startsWith("5s."), list.label(row));
+            squares.merge(row, list.share(k) * list.share(k), Double::sum);
+            if (list.shareComponent(k).equals("limit")) {
+                // written to 12 digits
+                assertEquals(LIMIT_U, list.share(k), 1e-12 * LIMIT_U, list.label(row));
+                withLimit.add(row);
+            }
+            if (list.shareComponent(k).equals("singlet limit offset")) {
+                assertTrue(list.label(row).matches("5s\\.\\d+[spd] 1[SPD][0-2]"), list.label(row));
+                assertEquals(SINGLET_OFFSET_U, list.share(k), 0.0);
+            }
         }
+        int rydberg = list.size() - 3;   // all but 5s2 1S0, 5s5p 3P1 and 5s5p 1P1
+        assertEquals(rydberg, withLimit.size());
+        // each level's independent part u^2 - sum v^2 is what rounding u up to two digits adds: not negative
+        squares.forEach((row, sum) -> assertTrue(sum <= Math.pow(list.uncertainty(row).getAsDouble(), 2)
+                * (1 + LevelList.SHARE_ROUNDING), list.label(row)));
         assertTrue(LEVELS.hasCovariance());
-        // the provider lists the set from its levels alone and reads the correlations on first load: same info
+        // listing and loading the set agree on what it is
         org.ritzwerk.refdata.internal.LevelProvider provider = new org.ritzwerk.refdata.internal.LevelProvider();
-        DataSetInfoCheck.same(provider.dataSets().stream().filter(i -> i.id().equals("levels-sr-i")).findFirst()
+        assertEquals(provider.dataSets().stream().filter(i -> i.id().equals("levels-sr-i")).findFirst()
                 .orElseThrow(), provider.load("levels-sr-i").info());
         assertEquals(list, provider.load("levels-sr-i"));
-    }
-
-    /** Listing and loading agree on what the set is. */
-    private static final class DataSetInfoCheck {
-        static void same(org.ritzwerk.data.DataSetInfo listed, org.ritzwerk.data.DataSetInfo loaded) {
-            assertEquals(listed, loaded);
-        }
     }
 
     @Test

@@ -2,6 +2,7 @@ package org.ritzwerk.engine.ritz;
 
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -65,7 +66,10 @@ public final class RitzLevels {
     }
 
     /**
-     * The rows of one species in a level list, energies and uncertainties converted to cm^-1.
+     * The rows of one species in a level list, energies and uncertainties converted to cm^-1, with
+     * the covariance the list gives (its correlations {@code r_ij u_i u_j} plus the products
+     * {@code sum_c v_ic v_jc} of the contributions of the uncertainty components two levels share;
+     * {@link LevelList}), when it gives any for the species.
      *
      * @param list    a level list (any wavenumber or energy unit)
      * @param species one of its species
@@ -85,7 +89,8 @@ public final class RitzLevels {
             if (list.species(i).equals(species)) {
                 place[i] = b.labels.size();
                 OptionalDouble u = list.uncertainty(i);
-                b.add(list.label(i), list.energy(i) * factor[0], u.isPresent() ? u.getAsDouble() * factor[0] : Double.NaN,
+                b.add(list.label(i), list.energy(i) * factor[0],
+                        u.isPresent() ? u.getAsDouble() * factor[0] : Double.NaN,
                         list.twoJ(i));
             }
         }
@@ -104,8 +109,31 @@ public final class RitzLevels {
             if (v == null) {
                 v = levels.diagonalCovariance();
             }
-            v[i][j] = list.correlation(k) * levels.sigma[i] * levels.sigma[j];
+            v[i][j] += list.correlation(k) * levels.sigma[i] * levels.sigma[j];
             v[j][i] = v[i][j];
+        }
+        // shared uncertainty components: sum_c v_ic v_jc off the diagonal (the diagonal stays u_i^2, the
+        // contributions being parts of it); a pair with a correlation shares no component (LevelList)
+        Map<String, List<double[]>> byComponent = new LinkedHashMap<>();
+        for (int k = 0; k < list.shareCount(); k++) {
+            int i = place[list.shareRow(k)];
+            if (i >= 0) {
+                byComponent.computeIfAbsent(list.shareComponent(k), c -> new ArrayList<>())
+                        .add(new double[] {i, list.share(k) * factor[0]});
+            }
+        }
+        for (List<double[]> members : byComponent.values()) {
+            if (v == null) {
+                v = levels.diagonalCovariance();
+            }
+            for (int a = 0; a < members.size(); a++) {
+                int i = (int) members.get(a)[0];
+                for (int c = a + 1; c < members.size(); c++) {
+                    int j = (int) members.get(c)[0];
+                    v[i][j] += members.get(a)[1] * members.get(c)[1];
+                    v[j][i] = v[i][j];
+                }
+            }
         }
         return v == null ? levels : levels.withCovariance(v);
     }

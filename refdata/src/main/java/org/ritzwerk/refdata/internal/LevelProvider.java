@@ -3,7 +3,6 @@ package org.ritzwerk.refdata.internal;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -30,48 +29,16 @@ import org.ritzwerk.refdata.ReferenceDataException;
  * Beside each level list, its companion line list of transition probabilities
  * ({@code lines-he-i}: A between the same level labels, by the Coulomb approximation from the level
  * energies, the lines to the ground level from memory; see {@code levels/README.md}), which
- * {@link DataContext#transitionProbabilities} finds. Thread-safe; files are read on first use.
+ * {@link DataContext#transitionProbabilities} finds. The Sr list's covariance comes as shared
+ * uncertainty components (935 contributions of 17 components, about half the file), cheap enough to
+ * read whole when the sets are first listed. Thread-safe; files are read on first use.
  */
 public final class LevelProvider implements ReferenceDataProvider {
 
     private static final List<String> FILES = List.of("levels-he-i", "lines-he-i", "levels-sr-i");
 
     /** The sets, read from the jar on first use (listing needs their headers anyway). */
-    private volatile Map<String, Entry> sets;
-
-    /**
-     * One built-in file: its info for listing and the set, read whole on first load. A level list with
-     * correlations (levels-sr-i: 20,503 pairs, most of the file) is listed from its levels alone, so
-     * that listing the data (every command does) does not read and check the correlations; the set
-     * with them is read when it is first loaded.
-     */
-    private static final class Entry {
-        final DataSetInfo info;
-        final String resource;
-        final String text;
-        private volatile DataSet set;
-
-        Entry(DataSetInfo info, String resource, String text, DataSet set) {
-            this.info = info;
-            this.resource = resource;
-            this.text = text;
-            this.set = set;
-        }
-
-        DataSet set() {
-            DataSet read = set;
-            if (read == null) {
-                synchronized (this) {
-                    read = set;
-                    if (read == null) {
-                        read = LevelListFiles.readCsv(text, resource);
-                        set = read;
-                    }
-                }
-            }
-            return read;
-        }
-    }
+    private volatile Map<String, DataSet> sets;
 
     @Override
     public String id() {
@@ -86,7 +53,7 @@ public final class LevelProvider implements ReferenceDataProvider {
     @Override
     public List<DataSetInfo> dataSets() {
         List<DataSetInfo> infos = new ArrayList<>();
-        sets().values().forEach(entry -> infos.add(entry.info));
+        sets().values().forEach(set -> infos.add(set.info()));
         return infos;
     }
 
@@ -96,13 +63,13 @@ public final class LevelProvider implements ReferenceDataProvider {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
                     "no level set '" + dataSetId + "'; known: " + String.join(", ", FILES));
         }
-        return sets().get(dataSetId).set();
+        return sets().get(dataSetId);
     }
 
-    private Map<String, Entry> sets() {
-        Map<String, Entry> read = sets;
+    private Map<String, DataSet> sets() {
+        Map<String, DataSet> read = sets;
         if (read == null) {
-            Map<String, Entry> all = new LinkedHashMap<>();
+            Map<String, DataSet> all = new LinkedHashMap<>();
             for (String id : FILES) {
                 all.put(id, read(id));
             }
@@ -112,25 +79,14 @@ public final class LevelProvider implements ReferenceDataProvider {
         return read;
     }
 
-    private static Entry read(String id) {
+    private static DataSet read(String id) {
         String resource = "levels/" + id + ".csv";
         try (InputStream in = LevelProvider.class.getResourceAsStream(BuiltInCsv.RESOURCES + resource)) {
             if (in == null) {
                 throw new IllegalStateException("built-in level file missing from the jar: " + resource);
             }
-            if (id.startsWith("lines-")) {
-                DataSet set = LineListFiles.read(in, resource, DataKind.LINES);
-                return new Entry(set.info(), resource, null, set);
-            }
-            String text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
-            int correlations = text.indexOf("\n# " + LevelListFiles.CORRELATIONS + "\n");
-            if (correlations < 0) {
-                DataSet set = LevelListFiles.readCsv(text, resource);
-                return new Entry(set.info(), resource, null, set);
-            }
-            // listed from the levels alone (the same header, so the same info); read whole on first load
-            DataSet levels = LevelListFiles.readCsv(text.substring(0, correlations + 1), resource);
-            return new Entry(levels.info(), resource, text, null);
+            return id.startsWith("lines-") ? LineListFiles.read(in, resource, DataKind.LINES)
+                    : LevelListFiles.read(in, resource);
         } catch (IOException e) {
             throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
         }

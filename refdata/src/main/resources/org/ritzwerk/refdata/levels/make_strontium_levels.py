@@ -18,19 +18,21 @@ dE/ddelta = 2 R_M / n*^3 (the papers' correlations are not given, so the terms a
 if independent), and for the singlet series 0.003 cm-1 more: their paper's fit used an older
 limit, not re-read here, and the published Sr limits differ by a few 1e-3 cm-1.
 
-Correlations (the "# correlations" section of the ritzwerk-levels format): the Rydberg levels share
-uncertainty components, and the covariance of two levels is the sum over the components they share
-of the products of their shares (common practice: the GUM, JCGM 100:2008, 5.2, for inputs common to
-two results), so that lines between two Rydberg levels are not stated with the shared parts added
-twice. Components: the limit's 10 MHz, shared by every Rydberg level (share limit_u); the singlet
-series' extra 0.003 cm-1, a limit offset of their paper's fit, shared by every level of the series
-that have it (share extra); and each series' defect parameters d0, d2, d4, shared by the levels of
-that series (shares dE/ddelta * u0, * u2 / (n - d0)^2, * u4 / (n - d0)^4, with dE/ddelta =
--2 R_M / n*^3; independent between parameters and series, as the uncertainties above). Written as
-the correlation r = cov / (u_i u_j) with the stated (rounded up) uncertainties u, to 12 digits; the
-rounding up leaves a non-negative independent part on the diagonal, so the matrix is positive
-semidefinite. The ground level (exact) and the 5s5p levels (from the level compilation,
-independent of the limit) correlate with nothing, so their lines keep their uncertainties.
+Shared uncertainties (the "# shared-uncertainties" section of the ritzwerk-levels format): the
+Rydberg levels share uncertainty components, and the covariance of two levels is the sum over the
+components they share of the products of their contributions (common practice: the GUM, JCGM
+100:2008, 5.2 and F.1.2.3, for inputs common to two results), so that lines between two Rydberg
+levels are not stated with the shared parts added twice. Each Rydberg level is written with its
+signed contribution from each component, to 12 digits: the limit's 10 MHz, shared by every Rydberg
+level (contribution limit_u); the singlet series' extra 0.003 cm-1, a limit offset of their paper's
+fit, shared by every level of the series that have it (contribution extra); and each series'
+defect parameters d0, d2, d4, shared by the levels of that series (contributions dE/ddelta * u0,
+* u2 / (n - d0)^2, * u4 / (n - d0)^4, with dE/ddelta = -2 R_M / n*^3; independent between
+parameters and series, as the uncertainties above). These are exactly the terms of each level's
+uncertainty, so its independent part u^2 - sum v^2 is what the rounding up of u adds; the script
+stops if it is negative for a level. The ground level (exact) and the 5s5p levels (from the level
+compilation, independent of the limit) share nothing, so their lines keep their uncertainties.
+(Before, the file carried the same covariance as 20,503 pairwise correlations r = cov / (u_i u_j).)
 
 Two low levels are added, from memory, for the lines that reach the series (NIST Atomic
 Spectra Database Sr I levels, J. E. Sansonetti and G. Nave, J. Phys. Chem. Ref. Data 39,
@@ -191,11 +193,12 @@ def main():
             ue = math.sqrt(limit_u ** 2 + (2 * r_m / nstar ** 3 * delta_unc(n, d0, u0, u2, u4)) ** 2 + extra ** 2)
             m = n - d0
             slope = -2 * r_m / nstar ** 3
-            # this level's share of each uncertainty component it has in common with others
-            shares = {"limit": limit_u, name + " d0": slope * u0, name + " d2": slope * u2 / m ** 2,
-                      name + " d4": slope * u4 / m ** 4}
+            # this level's contribution from each uncertainty component it has in common with others
+            shares = {"limit": limit_u}
             if extra > 0:
                 shares["singlet limit offset"] = extra
+            shares.update({name + " d0": slope * u0, name + " d2": slope * u2 / m ** 2,
+                           name + " d4": slope * u4 / m ** 4})
             levels.append((e, ("Sr-88 I", p["label"].replace("{n}", str(n)), "%.6f" % e, up2(ue), p["j"],
                                "from memory: Rydberg-Ritz parameters of %s; limit of Couturier et al. (2019); "
                                "defect %.6f" % (p["source"], d)), shares))
@@ -207,17 +210,20 @@ def main():
                    % (label, measured, n, d))
     levels.sort(key=lambda t: t[0])
     rows.extend(r for _, r, _ in levels)
-    correlations = []
-    for i in range(len(levels)):
-        _, ri, si = levels[i]
-        for j in range(i + 1, len(levels)):
-            _, rj, sj = levels[j]
-            cov = sum(si[k] * sj[k] for k in si if k in sj)
-            r = cov / (float(ri[3]) * float(rj[3]))
-            if not -1 <= r <= 1:
-                failures.append("correlation of %s and %s is %g" % (ri[1], rj[1], r))
-            correlations.append("Sr-88 I,%s,%s,%.12g" % (ri[1], rj[1], r))
-    out.append("correlations: %d pairs of Rydberg levels" % len(correlations))
+    share_rows = []
+    components = []
+    for _, r, sh in levels:
+        written = [(k, "%.12g" % v) for k, v in sh.items() if v != 0]
+        u = float(r[3])
+        independent = u ** 2 - sum(float(v) ** 2 for _, v in written)
+        if independent < -1e-12 * u ** 2:
+            failures.append("shared parts of %s exceed its uncertainty (%g)" % (r[1], independent))
+        for k, v in written:
+            share_rows.append("Sr-88 I,%s,%s,%s" % (r[1], k, v))
+            if k not in components:
+                components.append(k)
+    out.append("shared uncertainties: %d contributions of %d components to %d Rydberg levels"
+               % (len(share_rows), len(components), len(levels)))
     if failures:
         print("\n".join(out))
         raise SystemExit("checks failed: " + ", ".join(failures))
@@ -237,16 +243,16 @@ def main():
         f.write("# energy-unit: cm-1\n")
         f.write("# note: energies above the ground level 5s2 1S0; uncertainty (standard, rounded up to two digits) from the limit's 10 MHz "
                 "and the stated defect uncertainties (taken as independent), plus 0.003 cm-1 for the singlet "
-                "series; the Rydberg levels' correlations (after the levels) from the shared limit, singlet limit "
-                "offset and defect parameters of each series; series and first n: %s; above n = 50 the triplet formulas are extrapolated beyond the "
+                "series; the Rydberg levels' shared uncertainty components (after the levels): the limit, the singlet "
+                "limit offset and the defect parameters of each series; series and first n: %s; above n = 50 the triplet formulas are extrapolated beyond the "
                 "measured range; checks in strontium-checks.txt\n"
                 % ", ".join("%s from n = %d" % (q["series"], q["start"]) for q in used))
         f.write("species,label,energy,uncertainty,j,note\n")
         for r in rows:
             f.write(",".join(r) + "\n")
-        f.write("# correlations\n")
-        f.write("species,label,other,correlation\n")
-        for c in correlations:
+        f.write("# shared-uncertainties\n")
+        f.write("species,label,component,value\n")
+        for c in share_rows:
             f.write(c + "\n")
     with open(os.path.join(HERE, "strontium-checks.txt"), "w") as f:
         f.write("\n".join(out) + "\n")
