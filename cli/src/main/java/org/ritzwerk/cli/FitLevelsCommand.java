@@ -118,10 +118,15 @@ final class FitLevelsCommand implements Callable<Integer> {
                     + "'");
         }
         LevelOptimum fit;
+        // thousands of levels take minutes (each fit a QR of lines x levels): a sign of life on a terminal
+        Progress.Running running = Progress.ticking(spec.commandLine().getErr(), String.format(Locale.ROOT,
+                "fit-levels: %d levels from %d lines", problem.levels().size(), problem.size()));
         try {
             fit = LevelOptimizer.defaults().withOutlierThreshold(threshold).optimize(problem);
         } catch (RitzException e) {
             throw new RitzException(e.code(), file + ": " + e.getMessage());
+        } finally {
+            running.close();
         }
         if (levelsOut != null) {
             String levels;

@@ -931,35 +931,12 @@ final class TabularFiles {
                 String name = parser.currentName();
                 int line = parser.currentTokenLocation().getLineNr();
                 parser.nextToken();
-                if (name.equals(spec.arrayKey())) {
-                    sawRows = true;
-                    if (parser.currentToken() != JsonToken.START_ARRAY) {
-                        p.problem(line, 0, "data.json-shape", "'" + name + "' must be an array", "");
-                        parser.skipChildren();
-                        continue;
-                    }
-                    while (parser.nextToken() != JsonToken.END_ARRAY) {
-                        TokenStreamLocation at = parser.currentTokenLocation();
-                        JsonNode node = JSON.readTree(parser);
-                        if (!jsonRow(p, node, at.getLineNr(), at.getColumnNr())) {
-                            return p;
-                        }
-                    }
-                    continue;
-                }
-                Parsed section = sectionOf.get(name);
-                if (section != null) {
-                    if (parser.currentToken() != JsonToken.START_ARRAY) {
-                        p.problem(line, 0, "data.json-shape", "'" + name + "' must be an array", "");
-                        parser.skipChildren();
-                        continue;
-                    }
-                    while (parser.nextToken() != JsonToken.END_ARRAY) {
-                        TokenStreamLocation at = parser.currentTokenLocation();
-                        JsonNode node = JSON.readTree(parser);
-                        if (!jsonRow(section, node, at.getLineNr(), at.getColumnNr())) {
-                            return p;
-                        }
+                // the rows' array, or a further table's (whose problems stay in it)
+                Parsed rowsInto = name.equals(spec.arrayKey()) ? p : sectionOf.get(name);
+                if (rowsInto != null) {
+                    sawRows |= rowsInto == p;
+                    if (!jsonRows(parser, p, rowsInto, name, line)) {
+                        return p;
                     }
                     continue;
                 }
@@ -1021,6 +998,28 @@ final class TabularFiles {
     }
 
     /** @return false when reading should stop */
+    /**
+     * Reads the array of rows under key {@code name} into {@code rowsInto}; a value that is not an
+     * array is a problem of the file ({@code file}) and skipped.
+     *
+     * @return false when a row stopped the reading (too many problems)
+     */
+    private static boolean jsonRows(JsonParser parser, Parsed file, Parsed rowsInto, String name, int line) {
+        if (parser.currentToken() != JsonToken.START_ARRAY) {
+            file.problem(line, 0, "data.json-shape", "'" + name + "' must be an array", "");
+            parser.skipChildren();
+            return true;
+        }
+        while (parser.nextToken() != JsonToken.END_ARRAY) {
+            TokenStreamLocation at = parser.currentTokenLocation();
+            JsonNode node = JSON.readTree(parser);
+            if (!jsonRow(rowsInto, node, at.getLineNr(), at.getColumnNr())) {
+                return false;
+            }
+        }
+        return true;
+    }
+
     private static boolean jsonRow(Parsed p, JsonNode node, int line, int column) {
         String raw = p.raw(line);
         int entry = ++p.jsonEntries;
