@@ -151,8 +151,8 @@ public final class RitzLevels {
      * These levels as a level list of one species in cm^-1: each level's energy and standard
      * uncertainty, and, where a covariance is given, the correlation coefficient
      * {@code r_ij = V_ij / (u_i u_j)} of every pair with a covariance other than 0 and both
-     * uncertainties above 0 ({@link LevelList#correlate}), so that the list gives the covariance back
-     * within rounding (a few units in the last place of each entry).
+     * uncertainties above 0 ({@link LevelList.Builder#correlate}), so that the list gives the
+     * covariance back within rounding (a few units in the last place of each entry).
      *
      * @param set what the list is (kind levels); its species should be this set's
      * @return the level list, j where the label gives it, no notes
