@@ -347,7 +347,7 @@ public final class LevelListFiles {
             } else if (component.isBlank()) {
                 s.rowProblem(row, "component", "data.missing-value", "component's name is empty (blank)");
             }
-            double value = signed(s, row, "value");
+            double value = s.signedNumber(row, "value", true);
             if (s.problems.size() != rowBefore) {
                 continue;
             }
@@ -400,7 +400,7 @@ public final class LevelListFiles {
             Species species = c.species(row, levels.speciesCache());
             String[] columns = {"label", "other"};
             int[] level = {levels.level(c, row, species, "label"), levels.level(c, row, species, "other")};
-            double r = signed(c, row, "correlation");
+            double r = c.signedNumber(row, "correlation", true);
             if (!Double.isNaN(r) && !(r >= -1 && r <= 1)) {
                 c.rowProblem(row, "correlation", "data.out-of-range", "a correlation coefficient is from -1 to 1, got "
                         + row.values().get("correlation"));
@@ -557,31 +557,6 @@ public final class LevelListFiles {
             }
         }
     }
-    /** @return a number that may be negative, NaN when absent or bad (then reported) */
-    private static double signed(TabularFiles.Parsed c, TabularFiles.Row row, String column) {
-        Object value = row.values().get(column);
-        if (value == null) {
-            c.rowProblem(row, column, "data.missing-value", column + " is required");
-            return Double.NaN;
-        }
-        double number;
-        if (value instanceof Double) {
-            number = (Double) value;
-        } else {
-            String text = ((String) value).strip();
-            if (!TabularFiles.isDecimal(text)) {
-                c.rowProblem(row, column, "data.not-a-number", column + " is not a number: '" + value + "'");
-                return Double.NaN;
-            }
-            number = Double.parseDouble(text);
-        }
-        if (!Double.isFinite(number)) {
-            c.rowProblem(row, column, "data.not-finite", column + " is too large for a double");
-            return Double.NaN;
-        }
-        return number;
-    }
-
     /**
      * @param table a level table
      * @return the table in the CSV encoding, reading back equal

@@ -326,6 +326,17 @@ final class TabularFiles {
 
         /** @return the value, NaN when absent and optional (or when a problem was recorded) */
         double number(Row row, String column, boolean required) {
+            double number = signedNumber(row, column, required);
+            if (number < 0) {
+                rowProblem(row, column, "data.negative", column + " must not be negative, got "
+                        + row.values().get(column));
+                return Double.NaN;
+            }
+            return number;
+        }
+
+        /** @return the value, which may be negative; NaN when absent and optional (or when a problem was recorded) */
+        double signedNumber(Row row, String column, boolean required) {
             Object value = row.values().get(column);
             if (value == null) {
                 if (required) {
@@ -347,10 +358,6 @@ final class TabularFiles {
             if (!Double.isFinite(number)) {
                 rowProblem(row, column, "data.not-finite", column + " is too large for a double"
                         + (value instanceof String ? ": '" + ((String) value).strip() + "'" : ""));
-                return Double.NaN;
-            }
-            if (number < 0) {
-                rowProblem(row, column, "data.negative", column + " must not be negative, got " + value);
                 return Double.NaN;
             }
             return number;
