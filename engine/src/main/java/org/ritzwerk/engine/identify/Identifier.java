@@ -192,7 +192,6 @@ public final class Identifier {
             results = new Results(peaks.size(), lines.size());
             run(peaks, lines, order, results, 0, peaks.size(), none);
         }
-        refuseRepeatedPositions(pw, order);
         IntensityTerm term = IntensityTerm.from(peaks, lines, results.linePlusOne, intensityWeight);
         if (term != IntensityTerm.NONE) {
             results = new Results(peaks.size(), lines.size());
@@ -342,13 +341,18 @@ public final class Identifier {
             int first = order == null ? from : order[from];
             lo = lowerBound(lw, pw[first] - tolerance.halfWidth(pw[first], ps[first], maxLineSigma) - above);
         }
+        int previousPeak = -1;
         for (int k = from; k < to; k++) {
             int i = order == null ? k : order[k];
             double x = pw[i];
-            if (x < previous) {
+            if (x <= previous) {
+                if (x == previous) {
+                    throw repeatedPeak(previousPeak, i, x);
+                }
                 return false;
             }
             previous = x;
+            previousPeak = i;
             // An absolute tolerance needs no uncertainties: not reading them saves memory traffic.
             double sigma = fixed ? 0 : ps[i];
             // For absolute and relative tolerances the window and scoring width depend on the
@@ -1178,6 +1182,9 @@ public final class Identifier {
     }
 
     /**
+     * The parallel path's check (the serial one finds repeats as it walks the sorted peaks, at no
+     * extra cost, and names the same pair).
+     *
      * @param pw    the peaks' positions
      * @param order the permutation sorting them, or null when they are sorted
      * @throws IdentificationException naming the first two peaks (in sorted order) at one position
@@ -1187,12 +1194,16 @@ public final class Identifier {
             int a = order == null ? k - 1 : order[k - 1];
             int b = order == null ? k : order[k];
             if (pw[a] == pw[b]) {
-                throw new IdentificationException(IdentificationException.REPEATED_PEAK, String.format(Locale.ROOT,
-                        "peaks %d and %d (in the order given) lie at the same position, %.9g nm in vacuum: a peak "
-                        + "list holds each peak once, and a repeated one would count its lines twice",
-                        Math.min(a, b) + 1, Math.max(a, b) + 1, pw[a] * 1e9));
+                throw repeatedPeak(a, b, pw[a]);
             }
         }
+    }
+
+    private static IdentificationException repeatedPeak(int a, int b, double position) {
+        return new IdentificationException(IdentificationException.REPEATED_PEAK, String.format(Locale.ROOT,
+                "peaks %d and %d (in the order given) lie at the same position, %.9g nm in vacuum: a peak list "
+                + "holds each peak once, and a repeated one would count its lines twice", Math.min(a, b) + 1,
+                Math.max(a, b) + 1, position * 1e9));
     }
 
     private static boolean anyPositive(double[] values) {
