@@ -659,4 +659,11 @@ public final class Identification {
         }
         return Math.min(1, Math.max(0, f[k]));
     }
+
+    /** @return the counts at a glance, e.g. {@code Identification[50 peaks: 45 matched, 2 ambiguous, 3 unexplained]} */
+    @Override
+    public String toString() {
+        return "Identification[" + peaks.size() + " peaks: " + count(MATCHED) + " matched, " + count(AMBIGUOUS)
+                + " ambiguous, " + count(UNEXPLAINED) + " unexplained]";
+    }
 }

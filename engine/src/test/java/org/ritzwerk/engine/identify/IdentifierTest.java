@@ -341,5 +341,8 @@ class IdentifierTest {
         Identification two = identifier.identify(close, LINES);
         assertEquals(2, two.count(Identification.MATCHED) + two.count(Identification.AMBIGUOUS)
                 + two.count(Identification.UNEXPLAINED));
+        assertEquals("Identification[2 peaks: " + two.count(Identification.MATCHED) + " matched, "
+                + two.count(Identification.AMBIGUOUS) + " ambiguous, " + two.count(Identification.UNEXPLAINED)
+                + " unexplained]", two.toString());
     }
 }
