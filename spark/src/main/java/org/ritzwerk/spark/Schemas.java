@@ -243,15 +243,21 @@ public final class Schemas {
      * Output of applying calibrations: {@code id}, {@code calibration_id}, {@code counts} (as
      * given), {@code wavelengths_nm} (each pixel centre's wavelength in the calibration's
      * medium), {@code wavelength_sigmas_nm} (their standard uncertainties from the covariance)
-     * and {@code medium}.
+     * and {@code medium}; {@code failure_code} and {@code failure} when the spectrum's
+     * calibration was refused (a lamp exposure that did not calibrate): the calibration's
+     * {@code failure_code} (such as {@code calibrate.too-few-peaks}) and a message naming the
+     * calibration and its failure, {@code wavelengths_nm}, {@code wavelength_sigmas_nm} and
+     * {@code medium} then null.
      */
     public static final StructType CALIBRATED = struct(
             required("id", DataTypes.StringType),
             required("calibration_id", DataTypes.StringType),
             required("counts", DOUBLES),
-            required("wavelengths_nm", DOUBLES),
-            required("wavelength_sigmas_nm", DOUBLES),
-            required("medium", DataTypes.StringType));
+            optional("wavelengths_nm", DOUBLES),
+            optional("wavelength_sigmas_nm", DOUBLES),
+            optional("medium", DataTypes.StringType),
+            optional("failure_code", DataTypes.StringType),
+            optional("failure", DataTypes.StringType));
 
     /**
      * Synthesis input, one row per scene: {@code id} string; {@code species} array&lt;string&gt;
