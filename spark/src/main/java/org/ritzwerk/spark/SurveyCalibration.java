@@ -90,7 +90,7 @@ public final class SurveyCalibration {
      * @throws SparkRowException when a column is missing or has another type
      */
     public Dataset<Row> calibrate(Dataset<Row> exposures) {
-        return Setups.run(exposures, Schemas.EXPOSURES, "exposure", parameters, (p, f) -> {
+        return Setups.run(exposures, Schemas.EXPOSURES_COLUMNS, "exposure", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.calibrate(f, row);
         }, Schemas.CALIBRATIONS, checkIds);
@@ -114,7 +114,8 @@ public final class SurveyCalibration {
      *         with a {@link SparkRowException} naming the spectrum
      */
     public static Dataset<Row> apply(Dataset<Row> science, Dataset<Row> calibrations) {
-        Dataset<Row> left = Setups.checkedColumns(science, Fields.of(science.schema(), Schemas.SCIENCE, "science"));
+        Dataset<Row> left = Setups.checkedColumns(science, Fields.of(science.schema(), Schemas.SCIENCE_COLUMNS,
+                "science"));
         StructType wanted = new StructType();
         for (String name : APPLIED) {
             wanted = wanted.add(Schemas.CALIBRATIONS.apply(name));

@@ -93,7 +93,7 @@ public final class SurveySynthesis {
      * @throws SparkRowException when a column is missing or has another type
      */
     public Dataset<Row> synthesise(Dataset<Row> scenes) {
-        return Setups.run(scenes, Schemas.SCENES, "scene", parameters, (p, f) -> {
+        return Setups.run(scenes, Schemas.SCENES_COLUMNS, "scene", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.synthesise(f, row);
         }, Schemas.SPECTRA, checkIds);

@@ -245,6 +245,57 @@ class RowFormTest {
         assertEquals("row 'star-3', field 'counts': element 1 is NaN; each must be finite", message);
     }
 
+    /**
+     * The input schema constants declare every column and array element nullable, so a table built
+     * with them keeps a null, and a null in a required field is refused naming the row and field.
+     * With the columns declared not nullable Spark read a null seed as 0, a null temperature as
+     * 0.0, and a null positions array failed inside Spark's optimiser (common practice: a missing
+     * value is never read as a default).
+     */
+    @Test
+    void aNullInARequiredFieldOfATableBuiltWithTheSchemasIsNamed() {
+        for (StructType schema : List.of(Schemas.PEAK_LISTS, Schemas.PEAK_ROWS, Schemas.EXPOSURES, Schemas.SCIENCE,
+                Schemas.SCENES)) {
+            for (org.apache.spark.sql.types.StructField field : schema.fields()) {
+                assertTrue(field.nullable(), field.name());
+                if (field.dataType() instanceof org.apache.spark.sql.types.ArrayType array) {
+                    assertTrue(array.containsNull(), field.name());
+                }
+            }
+        }
+        SparkSession spark = LocalSpark.session();
+        SurveySynthesis synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 100).withModel("qed", 8));
+        List<Row> noSeed = List.of(RowFactory.create("no-seed", new String[] {"H I"}, null, 8000.0, null, 0.0,
+                5000.0, null));
+        assertEquals("row 'no-seed', field 'seed': is null", SurveyIdentificationTest.failure(
+                () -> synthesis.synthesise(spark.createDataFrame(noSeed, Schemas.SCENES)).count()));
+        List<Row> noTemperature = List.of(RowFactory.create("no-temperature", new String[] {"H I"}, null, null, null,
+                0.0, 5000.0, 1L));
+        assertEquals("row 'no-temperature', field 'temperature_k': is null", SurveyIdentificationTest.failure(
+                () -> synthesis.synthesise(spark.createDataFrame(noTemperature, Schemas.SCENES)).count()));
+        List<Row> noSpecies = List.of(RowFactory.create("no-species", null, null, 8000.0, null, 0.0, 5000.0, 1L));
+        assertEquals("row 'no-species', field 'species': is null", SurveyIdentificationTest.failure(
+                () -> synthesis.synthesise(spark.createDataFrame(noSpecies, Schemas.SCENES)).count()));
+        List<Row> noPositions = List.of(RowFactory.create("no-positions", null, null, null, null));
+        assertEquals("row 'no-positions', field 'positions': is null", SurveyIdentificationTest.failure(
+                () -> job().identify(spark.createDataFrame(noPositions, Schemas.PEAK_LISTS)).spectra().count()));
+        List<Row> nullElement = List.of(RowFactory.create("gap", new Double[] {486.1, null}, null, null, null));
+        assertEquals("row 'gap', field 'positions': element 1 is null", SurveyIdentificationTest.failure(
+                () -> job().identify(spark.createDataFrame(nullElement, Schemas.PEAK_LISTS)).spectra().count()));
+        List<Row> noCounts = List.of(RowFactory.create("no-counts", null, null));
+        assertEquals("row 'no-counts', field 'counts': is null", SurveyIdentificationTest.failure(
+                () -> SurveyCalibration.of(CalibrationParameters.of(List.of("Ne I"), List.of())).calibrate(
+                        spark.createDataFrame(noCounts, Schemas.EXPOSURES)).count()));
+        List<Row> noCalibration = List.of(RowFactory.create("star-9", null, new double[] {1, 2, 3, 4}));
+        assertEquals("row 'star-9', field 'calibration_id': is null", SurveyIdentificationTest.failure(
+                () -> SurveyCalibration.apply(spark.createDataFrame(noCalibration, Schemas.SCIENCE),
+                        spark.createDataFrame(List.of(calibration("cal-1", 500.0)), Schemas.CALIBRATIONS)).count()));
+        // Grouped peak rows come out in exactly the documented peak-list schema.
+        List<Row> peakRows = List.of(RowFactory.create("p", 0, 486.1, null, null, null));
+        assertEquals(Schemas.PEAK_LISTS, SurveyIdentification.peakLists(spark.createDataFrame(peakRows,
+                Schemas.PEAK_ROWS)).schema());
+    }
+
     /** A saved calibration of 4 pixels, wavelength = a0 + 1 nm x (pixel - 1.5) / 1.5, air. */
     private static Row calibration(String id, double a0) {
         return RowFactory.create(id, 4, "air", 1, 1.5, 1.5, new double[] {a0, 1.0}, null, 0.0, 3.0, 0.01, 0.1, 1.0,
