@@ -88,6 +88,7 @@ public final class SurveyCalibration {
      * @param exposures a table with the columns of {@link Schemas#EXPOSURES}
      * @return one calibration per exposure, {@link Schemas#CALIBRATIONS} (lazy)
      * @throws SparkRowException when a column is missing or has another type
+     * @throws IllegalArgumentException when the table is streaming (use {@code foreachBatch})
      */
     public Dataset<Row> calibrate(Dataset<Row> exposures) {
         return Setups.run(exposures, Schemas.EXPOSURES_COLUMNS, "exposure", parameters, (p, f) -> {
@@ -112,8 +113,11 @@ public final class SurveyCalibration {
      *         null); a spectrum whose calibration is missing, made for another pixel count or not
      *         the only one with its id, and a spectrum whose own id another row has, fail the job
      *         with a {@link SparkRowException} naming the spectrum
+     * @throws IllegalArgumentException when either table is streaming (use {@code foreachBatch})
      */
     public static Dataset<Row> apply(Dataset<Row> science, Dataset<Row> calibrations) {
+        Setups.requireBatch(science, "science");
+        Setups.requireBatch(calibrations, "calibration");
         Dataset<Row> left = Setups.checkedColumns(science, Fields.of(science.schema(), Schemas.SCIENCE_COLUMNS,
                 "science"));
         StructType wanted = new StructType();

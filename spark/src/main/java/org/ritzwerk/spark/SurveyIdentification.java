@@ -101,6 +101,7 @@ public final class SurveyIdentification {
      * @param peakLists a table with the columns of {@link Schemas#PEAK_LISTS}
      * @return the identification of every row (lazy)
      * @throws SparkRowException when a column is missing or has another type
+     * @throws IllegalArgumentException when the table is streaming (use {@code foreachBatch})
      */
     public Result identify(Dataset<Row> peakLists) {
         return new Result(Setups.run(peakLists, Schemas.PEAK_LISTS_COLUMNS, "peak-list", parameters, (p, f) -> {

@@ -91,6 +91,7 @@ public final class SurveySynthesis {
      * @param scenes a table with the columns of {@link Schemas#SCENES}
      * @return one spectrum per scene, {@link Schemas#SPECTRA} (lazy)
      * @throws SparkRowException when a column is missing or has another type
+     * @throws IllegalArgumentException when the table is streaming (use {@code foreachBatch})
      */
     public Dataset<Row> synthesise(Dataset<Row> scenes) {
         return Setups.run(scenes, Schemas.SCENES_COLUMNS, "scene", parameters, (p, f) -> {

@@ -296,6 +296,42 @@ class RowFormTest {
                 Schemas.PEAK_ROWS)).schema());
     }
 
+    /**
+     * A streaming table is refused when the operation is made, pointing to foreachBatch (Spark
+     * itself refused it only at the action, with a message about writeStream that named no way
+     * out; common practice: fail fast with the remedy).
+     */
+    @Test
+    void aStreamingTableIsRefusedUpFrontPointingToForeachBatch() {
+        SparkSession spark = LocalSpark.session();
+        Dataset<Row> ticks = spark.readStream().format("rate").load();
+        org.apache.spark.sql.Column id = ticks.col("value").cast("string").as("id");
+        Dataset<Row> peaks = ticks.select(id, org.apache.spark.sql.functions.array(
+                org.apache.spark.sql.functions.lit(656.46)).as("positions"));
+        Dataset<Row> counts = ticks.select(id, org.apache.spark.sql.functions.array(
+                org.apache.spark.sql.functions.lit(1.0)).as("counts"));
+        Dataset<Row> science = counts.withColumn("calibration_id", org.apache.spark.sql.functions.lit("cal-1"));
+        Dataset<Row> scenes = ticks.select(id, org.apache.spark.sql.functions.array(
+                org.apache.spark.sql.functions.lit("H I")).as("species"),
+                org.apache.spark.sql.functions.lit(8000.0).as("temperature_k"),
+                org.apache.spark.sql.functions.lit(0.0).as("velocity_m_s"),
+                org.apache.spark.sql.functions.lit(5000.0).as("resolving_power"), ticks.col("value").as("seed"));
+        Dataset<Row> calibrations = spark.createDataFrame(List.of(calibration("cal-1", 500.0)), Schemas.CALIBRATIONS);
+        List<org.junit.jupiter.api.function.Executable> calls = List.of(
+                () -> job().identify(peaks),
+                () -> SurveyCalibration.of(CalibrationParameters.of(List.of("Ne I"), List.of())).calibrate(counts),
+                () -> SurveySynthesis.of(SynthesisParameters.linear(640, 670, 100)).synthesise(scenes),
+                () -> SurveyCalibration.apply(science, calibrations));
+        List<String> roles = List.of("peak-list", "exposure", "scene", "science");
+        for (int k = 0; k < calls.size(); k++) {
+            IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(
+                    IllegalArgumentException.class, calls.get(k));
+            assertTrue(e.getMessage().startsWith("the " + roles.get(k) + " table is a streaming Dataset"),
+                    e.getMessage());
+            assertTrue(e.getMessage().contains("foreachBatch"), e.getMessage());
+        }
+    }
+
     /** A saved calibration of 4 pixels, wavelength = a0 + 1 nm x (pixel - 1.5) / 1.5, air. */
     private static Row calibration(String id, double a0) {
         return RowFactory.create(id, 4, "air", 1, 1.5, 1.5, new double[] {a0, 1.0}, null, 0.0, 3.0, 0.01, 0.1, 1.0,
