@@ -39,13 +39,16 @@ import org.ritzwerk.refdata.DataLines;
  * ({@code DispersionSolution.of(polynomial).pixelCentreWavelengths(pixels)} and
  * {@code pixelCentreWavelengthSigmas}).
  *
- * <p>The parameters are broadcast once; each partition builds the lamp set and the calibrator
- * once. A malformed row (or one whose id another row has) fails the job with a
- * {@link SparkRowException} naming the row's id and field; an exposure the calibrator refuses
- * gets its error code and message in {@code failure_code} and {@code failure}, and so does each
- * science spectrum that {@link #apply} finds with a refused calibration.
+ * <p>Each call of {@link #calibrate} broadcasts the parameters once, when it is called (before any
+ * action; every action on its table reuses the broadcast); each partition builds the lamp set and
+ * the calibrator once. A malformed row (or one whose id another row has) fails the job with a
+ * {@link SparkRowException} naming the row's id and field; an exposure the calibrator refuses gets
+ * its error code and message in {@code failure_code} and {@code failure}, and so does each science
+ * spectrum that {@link #apply} finds with a refused calibration.
  *
  * <p>Immutable and thread-safe; the operations are lazy transformations.
+ * An operation object lives on the driver and is not {@code Serializable}; only its parameter
+ * record, which is, travels to the executors.
  */
 public final class SurveyCalibration {
 

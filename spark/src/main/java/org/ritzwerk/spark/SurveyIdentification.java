@@ -50,14 +50,17 @@ import org.ritzwerk.refdata.DataLines;
  * {@link IdentificationParameters} describe; one {@link Schemas#IDENTIFIED_SPECTRA} row per
  * spectrum, and per peak through {@link Result#peaks()}.
  *
- * <p>The parameters are broadcast once; each partition builds the candidate catalogue and the
- * search once and then streams its rows through them. A malformed row (a null or non-finite
- * position, arrays of different lengths, a k-sigma tolerance without uncertainties, an id that
- * another row also has) fails the job with a {@link SparkRowException} naming the row's id and
- * field. A well-formed spectrum the
- * job refuses gets the job's error code and message in {@code failure_code} and {@code failure}.
+ * <p>Each call of {@link #identify} broadcasts the parameters once, when it is called (before any
+ * action; every action on its table reuses the broadcast); each partition builds the candidate
+ * catalogue and the search once and then streams its rows through them. A malformed row (a null or
+ * non-finite position, arrays of different lengths, a k-sigma tolerance without uncertainties, an
+ * id that another row also has) fails the job with a {@link SparkRowException} naming the row's id
+ * and field. A well-formed spectrum the job refuses gets the job's error code and message in
+ * {@code failure_code} and {@code failure}.
  *
  * <p>Immutable and thread-safe; the operation is a lazy transformation.
+ * An operation object lives on the driver and is not {@code Serializable}; only its parameter
+ * record, which is, travels to the executors.
  */
 public final class SurveyIdentification {
 
