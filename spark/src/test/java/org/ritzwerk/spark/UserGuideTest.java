@@ -94,17 +94,17 @@ class UserGuideTest {
         String out = folder.toString();
         Fixtures.peakListTable(spark, Fixtures.peakLists(List.of("H I", "He II"), 4, 10, 2, 7L), 2).write()
                 .parquet(peakFiles);
+
+        // --- README: streaming ---
         SurveyIdentification identification = SurveyIdentification.of(
                 IdentificationParameters.inWindow(List.of("H I", "He II"), List.of(), 360, 710)
                         .withTolerance("5 sigma").withVelocitySearch(100e3));
-
-        // --- README: streaming ---
         Dataset<Row> stream = spark.readStream().schema(Schemas.PEAK_LISTS).parquet(peakFiles);
         stream.writeStream()
                 .foreachBatch((VoidFunction2<Dataset<Row>, Long>) (batch, batchId) -> identification.identify(batch)
                         .spectra().write().mode("append").parquet(out + "/identified.parquet"))
                 .option("checkpointLocation", out + "/checkpoint")
-                .trigger(Trigger.AvailableNow())
+                .trigger(Trigger.AvailableNow()) // README: .start() alone, a query that keeps running
                 .start().awaitTermination();
         // --- end ---
 
