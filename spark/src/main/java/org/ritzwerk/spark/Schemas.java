@@ -9,9 +9,17 @@ import org.apache.spark.sql.types.StructType;
 /**
  * The tables the operations read and write. Input tables need the named columns with these
  * types (other columns are ignored; column order is free); output tables have exactly these
- * columns in this order. Arrays hold no null elements; a nullable column may be null as a whole.
- * Doubles that a job leaves undefined (a residual of an unexplained peak, a presence without
- * strong lines) are null, never NaN.
+ * columns in this order. Doubles that a job leaves undefined (a residual of an unexplained peak,
+ * a presence without strong lines) are null, never NaN.
+ *
+ * <p><b>Input schemas are nullable.</b> {@link #PEAK_LISTS}, {@link #PEAK_ROWS},
+ * {@link #EXPOSURES}, {@link #SCIENCE} and {@link #SCENES} declare every column and every array
+ * element nullable, as tables read from files have them, so a table built with them
+ * ({@code spark.createDataFrame(rows, Schemas.SCENES)}) keeps a null where one was given. Which
+ * columns a row must give is said per constant (the others are "nullable" there): a null in a
+ * required column or a null array element is refused by the operation, naming the row's id and
+ * the field ({@code row 'scene-3', field 'seed': is null}). Output schemas declare the columns
+ * that are never null as not nullable.
  *
  * <p><b>Ids are keys.</b> In every input table whose {@code id} names a spectrum, an exposure or
  * a scene ({@link #PEAK_LISTS}, {@link #EXPOSURES}, {@link #SCENES}, {@link #SCIENCE}), and in
@@ -49,6 +57,32 @@ public final class Schemas {
     }
 
     /**
+     * @return the columns with every column and every array element nullable: the schema a user
+     *         builds an input table with, so that Spark keeps a null for the operation to refuse
+     *         by row and field (a column declared not nullable makes Spark read a null as 0, or
+     *         fail inside its optimiser)
+     */
+    private static StructType input(StructType columns) {
+        StructField[] fields = columns.fields().clone();
+        for (int k = 0; k < fields.length; k++) {
+            DataType type = fields[k].dataType();
+            if (type instanceof ArrayType array) {
+                type = DataTypes.createArrayType(array.elementType(), true);
+            }
+            fields[k] = DataTypes.createStructField(fields[k].name(), type, true);
+        }
+        return DataTypes.createStructType(fields);
+    }
+
+    /** The columns of {@link #PEAK_LISTS}: required ones not nullable, optional ones nullable. */
+    static final StructType PEAK_LISTS_COLUMNS = struct(
+            required("id", DataTypes.StringType),
+            required("positions", DOUBLES),
+            optional("sigmas", DOUBLES),
+            optional("intensities", DOUBLES),
+            optional("widths", DOUBLES));
+
+    /**
      * Identification input, one row per spectrum: {@code id} string; {@code positions}
      * array&lt;double&gt; (the peaks, in the unit and medium of {@link IdentificationParameters});
      * {@code sigmas} array&lt;double&gt;, nullable (standard uncertainties, same unit; needed by a
@@ -56,12 +90,16 @@ public final class Schemas {
      * proportional); {@code widths} array&lt;double&gt;, nullable (FWHMs, same unit, for the
      * plasma estimate). Arrays of one row have one element per peak.
      */
-    public static final StructType PEAK_LISTS = struct(
+    public static final StructType PEAK_LISTS = input(PEAK_LISTS_COLUMNS);
+
+    /** The columns of {@link #PEAK_ROWS}: required ones not nullable, optional ones nullable. */
+    static final StructType PEAK_ROWS_COLUMNS = struct(
             required("id", DataTypes.StringType),
-            required("positions", DOUBLES),
-            optional("sigmas", DOUBLES),
-            optional("intensities", DOUBLES),
-            optional("widths", DOUBLES));
+            required("peak", DataTypes.IntegerType),
+            required("position", DataTypes.DoubleType),
+            optional("sigma", DataTypes.DoubleType),
+            optional("intensity", DataTypes.DoubleType),
+            optional("width", DataTypes.DoubleType));
 
     /**
      * Identification input, one row per peak (turned into {@link #PEAK_LISTS} by
@@ -70,13 +108,7 @@ public final class Schemas {
      * {@code sigma}, {@code intensity}, {@code width} double, nullable (a spectrum's column is
      * used only when every one of its peaks gives it).
      */
-    public static final StructType PEAK_ROWS = struct(
-            required("id", DataTypes.StringType),
-            required("peak", DataTypes.IntegerType),
-            required("position", DataTypes.DoubleType),
-            optional("sigma", DataTypes.DoubleType),
-            optional("intensity", DataTypes.DoubleType),
-            optional("width", DataTypes.DoubleType));
+    public static final StructType PEAK_ROWS = input(PEAK_ROWS_COLUMNS);
 
     /**
      * One identified peak: {@code peak} (0-based index in its spectrum), {@code position} (as
@@ -168,15 +200,18 @@ public final class Schemas {
     public static final StructType IDENTIFIED_PEAKS = struct(concat(
             new StructField[] {required("id", DataTypes.StringType)}, IDENTIFIED_PEAK.fields()));
 
+    /** The columns of {@link #EXPOSURES}: required ones not nullable, optional ones nullable. */
+    static final StructType EXPOSURES_COLUMNS = struct(
+            required("id", DataTypes.StringType),
+            required("counts", DOUBLES),
+            optional("sigmas", DOUBLES));
+
     /**
      * Calibration input, one row per raw lamp exposure: {@code id} string; {@code counts}
      * array&lt;double&gt; (counts per pixel, pixel 0 first); {@code sigmas} array&lt;double&gt;,
      * nullable (their standard uncertainties; from the counts when null).
      */
-    public static final StructType EXPOSURES = struct(
-            required("id", DataTypes.StringType),
-            required("counts", DOUBLES),
-            optional("sigmas", DOUBLES));
+    public static final StructType EXPOSURES = input(EXPOSURES_COLUMNS);
 
     /**
      * Calibration output, one row per exposure: {@code id}; {@code pixels}; the dispersion
@@ -229,29 +264,49 @@ public final class Schemas {
             optional("failure", DataTypes.StringType),
             optional("notes", STRINGS));
 
-    /**
-     * Input of applying calibrations, one row per science spectrum: {@code id} string;
-     * {@code calibration_id} string (the {@code id} of a row of {@link #CALIBRATIONS});
-     * {@code counts} array&lt;double&gt;.
-     */
-    public static final StructType SCIENCE = struct(
+    /** The columns of {@link #SCIENCE}: required ones not nullable, optional ones nullable. */
+    static final StructType SCIENCE_COLUMNS = struct(
             required("id", DataTypes.StringType),
             required("calibration_id", DataTypes.StringType),
             required("counts", DOUBLES));
 
     /**
+     * Input of applying calibrations, one row per science spectrum: {@code id} string;
+     * {@code calibration_id} string (the {@code id} of a row of {@link #CALIBRATIONS});
+     * {@code counts} array&lt;double&gt;.
+     */
+    public static final StructType SCIENCE = input(SCIENCE_COLUMNS);
+
+    /**
      * Output of applying calibrations: {@code id}, {@code calibration_id}, {@code counts} (as
      * given), {@code wavelengths_nm} (each pixel centre's wavelength in the calibration's
      * medium), {@code wavelength_sigmas_nm} (their standard uncertainties from the covariance)
-     * and {@code medium}.
+     * and {@code medium}; {@code failure_code} and {@code failure} when the spectrum's
+     * calibration was refused (a lamp exposure that did not calibrate): the calibration's
+     * {@code failure_code} (such as {@code calibrate.too-few-peaks}) and a message naming the
+     * calibration and its failure, {@code wavelengths_nm}, {@code wavelength_sigmas_nm} and
+     * {@code medium} then null.
      */
     public static final StructType CALIBRATED = struct(
             required("id", DataTypes.StringType),
             required("calibration_id", DataTypes.StringType),
             required("counts", DOUBLES),
-            required("wavelengths_nm", DOUBLES),
-            required("wavelength_sigmas_nm", DOUBLES),
-            required("medium", DataTypes.StringType));
+            optional("wavelengths_nm", DOUBLES),
+            optional("wavelength_sigmas_nm", DOUBLES),
+            optional("medium", DataTypes.StringType),
+            optional("failure_code", DataTypes.StringType),
+            optional("failure", DataTypes.StringType));
+
+    /** The columns of {@link #SCENES}: required ones not nullable, optional ones nullable. */
+    static final StructType SCENES_COLUMNS = struct(
+            required("id", DataTypes.StringType),
+            required("species", STRINGS),
+            optional("abundances", DOUBLES),
+            required("temperature_k", DataTypes.DoubleType),
+            optional("electron_density_m3", DataTypes.DoubleType),
+            required("velocity_m_s", DataTypes.DoubleType),
+            required("resolving_power", DataTypes.DoubleType),
+            required("seed", DataTypes.LongType));
 
     /**
      * Synthesis input, one row per scene: {@code id} string; {@code species} array&lt;string&gt;
@@ -263,15 +318,7 @@ public final class Schemas {
      * positive away); {@code resolving_power} (the instrument's lambda / FWHM); {@code seed} long
      * (the noise draw of this row).
      */
-    public static final StructType SCENES = struct(
-            required("id", DataTypes.StringType),
-            required("species", STRINGS),
-            optional("abundances", DOUBLES),
-            required("temperature_k", DataTypes.DoubleType),
-            optional("electron_density_m3", DataTypes.DoubleType),
-            required("velocity_m_s", DataTypes.DoubleType),
-            required("resolving_power", DataTypes.DoubleType),
-            required("seed", DataTypes.LongType));
+    public static final StructType SCENES = input(SCENES_COLUMNS);
 
     /**
      * One line of a synthetic spectrum's truth (the engine's {@code Scene.Lines}):

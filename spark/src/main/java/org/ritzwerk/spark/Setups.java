@@ -149,6 +149,23 @@ final class Setups {
         };
     }
 
+    /**
+     * Refuses a streaming table up front: the operations read a table's rows as one batch (and
+     * count its ids), which Spark allows only at an action, with a message that does not name the
+     * way out.
+     *
+     * @param table the input
+     * @param role  the table's role, for the message
+     * @throws IllegalArgumentException when the table is streaming
+     */
+    static void requireBatch(Dataset<Row> table, String role) {
+        if (table.isStreaming()) {
+            throw new IllegalArgumentException("the " + role + " table is a streaming Dataset (isStreaming()); the"
+                    + " Ritzwerk operations take batch tables: run the operation on each micro-batch with"
+                    + " writeStream().foreachBatch((batch, batchId) -> ...)");
+        }
+    }
+
     /** The column the id check adds: how many rows share this row's id, null when it is the only one. */
     static final String COPIES = "_ritzwerk_id_copies";
     private static final String KEY = "_ritzwerk_id";
@@ -245,6 +262,7 @@ final class Setups {
      */
     static <P> Dataset<Row> run(Dataset<Row> table, StructType expected, String role, P parameters,
             InternalJob<P> job, StructType output, boolean checkIds) {
+        requireBatch(table, role);
         Dataset<Row> checked = checkedColumns(table, Fields.of(table.schema(), expected, role), checkIds);
         Fields fields = Fields.of(checked.schema(), expected, role);
         int copies = checked.schema().fieldIndex(COPIES);

@@ -39,12 +39,16 @@ import org.ritzwerk.refdata.DataLines;
  * ({@code DispersionSolution.of(polynomial).pixelCentreWavelengths(pixels)} and
  * {@code pixelCentreWavelengthSigmas}).
  *
- * <p>The parameters are broadcast once; each partition builds the lamp set and the calibrator
- * once. A malformed row (or one whose id another row has) fails the job with a
- * {@link SparkRowException} naming the row's id and field; an exposure the calibrator refuses gets its error code and message in
- * {@code failure_code} and {@code failure}.
+ * <p>Each call of {@link #calibrate} broadcasts the parameters once, when it is called (before any
+ * action; every action on its table reuses the broadcast); each partition builds the lamp set and
+ * the calibrator once. A malformed row (or one whose id another row has) fails the job with a
+ * {@link SparkRowException} naming the row's id and field; an exposure the calibrator refuses gets
+ * its error code and message in {@code failure_code} and {@code failure}, and so does each science
+ * spectrum that {@link #apply} finds with a refused calibration.
  *
  * <p>Immutable and thread-safe; the operations are lazy transformations.
+ * An operation object lives on the driver and is not {@code Serializable}; only its parameter
+ * record, which is, travels to the executors.
  */
 public final class SurveyCalibration {
 
@@ -87,9 +91,10 @@ public final class SurveyCalibration {
      * @param exposures a table with the columns of {@link Schemas#EXPOSURES}
      * @return one calibration per exposure, {@link Schemas#CALIBRATIONS} (lazy)
      * @throws SparkRowException when a column is missing or has another type
+     * @throws IllegalArgumentException when the table is streaming (use {@code foreachBatch})
      */
     public Dataset<Row> calibrate(Dataset<Row> exposures) {
-        return Setups.run(exposures, Schemas.EXPOSURES, "exposure", parameters, (p, f) -> {
+        return Setups.run(exposures, Schemas.EXPOSURES_COLUMNS, "exposure", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.calibrate(f, row);
         }, Schemas.CALIBRATIONS, checkIds);
@@ -106,12 +111,18 @@ public final class SurveyCalibration {
      *                     {@code science.calibration_id = calibrations.id} (Spark broadcasts the
      *                     calibrations when they are small)
      * @return every science spectrum with its wavelengths, {@link Schemas#CALIBRATED} (lazy); a
-     *         spectrum whose calibration is missing, refused, made for another pixel count or not
+     *         spectrum whose calibration was refused keeps its row with the calibration's
+     *         {@code failure_code} and a {@code failure} naming the calibration (its wavelengths
+     *         null); a spectrum whose calibration is missing, made for another pixel count or not
      *         the only one with its id, and a spectrum whose own id another row has, fail the job
      *         with a {@link SparkRowException} naming the spectrum
+     * @throws IllegalArgumentException when either table is streaming (use {@code foreachBatch})
      */
     public static Dataset<Row> apply(Dataset<Row> science, Dataset<Row> calibrations) {
-        Dataset<Row> left = Setups.checkedColumns(science, Fields.of(science.schema(), Schemas.SCIENCE, "science"));
+        Setups.requireBatch(science, "science");
+        Setups.requireBatch(calibrations, "calibration");
+        Dataset<Row> left = Setups.checkedColumns(science, Fields.of(science.schema(), Schemas.SCIENCE_COLUMNS,
+                "science"));
         StructType wanted = new StructType();
         for (String name : APPLIED) {
             wanted = wanted.add(Schemas.CALIBRATIONS.apply(name));
@@ -256,14 +267,31 @@ public final class SurveyCalibration {
                 throw bad(id, "calibration_id", "the calibrations table has " + row.getLong(15) + " rows with the id '"
                         + calibrationId + "'; each calibration needs its own id");
             }
-            if (!row.isNullAt(12)) {
-                throw bad(id, "calibration_id", "calibration '" + calibrationId + "' was refused ("
-                        + row.getString(12) + ": " + row.getString(13) + "); there is nothing to apply");
+            if (row.isNullAt(4)) {
+                throw bad(id, "calibration_id", "calibration '" + calibrationId + "' has no pixel count");
             }
             int pixels = row.getInt(4);
             if (counts.size() != pixels) {
                 throw bad(id, "counts", "has " + counts.size() + " pixels, but calibration '" + calibrationId
                         + "' was made for " + pixels);
+            }
+            double[] values = new double[pixels];
+            for (int i = 0; i < pixels; i++) {
+                Object value = counts.get(i);
+                if (value == null) {
+                    throw bad(id, "counts", "element " + i + " is null");
+                }
+                values[i] = (Double) value;
+                if (!Double.isFinite(values[i])) {
+                    throw bad(id, "counts", "element " + i + " is " + values[i] + "; each must be finite");
+                }
+            }
+            if (!row.isNullAt(12)) {
+                // One refused lamp exposure a night is normal: its spectra keep their rows, refused (the
+                // calibration's code, and a message naming it), and the job goes on.
+                return RowFactory.create(id, calibrationId, values, null, null, null, row.getString(12),
+                        "calibration '" + calibrationId + "' was refused (" + row.getString(12) + ": "
+                        + row.getString(13) + "); there is nothing to apply");
             }
             double[] coefficients = doubles(row.getList(8));
             double[][] covariance = null;
@@ -288,19 +316,8 @@ public final class SurveyCalibration {
                 throw bad(id, "calibration_id", "calibration '" + calibrationId + "' is not a usable polynomial: "
                         + e.getMessage());
             }
-            double[] values = new double[pixels];
-            for (int i = 0; i < pixels; i++) {
-                Object value = counts.get(i);
-                if (value == null) {
-                    throw bad(id, "counts", "element " + i + " is null");
-                }
-                values[i] = (Double) value;
-                if (!Double.isFinite(values[i])) {
-                    throw bad(id, "counts", "element " + i + " is " + values[i] + "; each must be finite");
-                }
-            }
             return RowFactory.create(id, calibrationId, values, solution.pixelCentreWavelengths(pixels),
-                    solution.pixelCentreWavelengthSigmas(pixels), medium.spec());
+                    solution.pixelCentreWavelengthSigmas(pixels), medium.spec(), null, null);
         }
 
         private static double[] doubles(List<Object> list) {

@@ -50,14 +50,17 @@ import org.ritzwerk.refdata.DataLines;
  * {@link IdentificationParameters} describe; one {@link Schemas#IDENTIFIED_SPECTRA} row per
  * spectrum, and per peak through {@link Result#peaks()}.
  *
- * <p>The parameters are broadcast once; each partition builds the candidate catalogue and the
- * search once and then streams its rows through them. A malformed row (a null or non-finite
- * position, arrays of different lengths, a k-sigma tolerance without uncertainties, an id that
- * another row also has) fails the job with a {@link SparkRowException} naming the row's id and
- * field. A well-formed spectrum the
- * job refuses gets the job's error code and message in {@code failure_code} and {@code failure}.
+ * <p>Each call of {@link #identify} broadcasts the parameters once, when it is called (before any
+ * action; every action on its table reuses the broadcast); each partition builds the candidate
+ * catalogue and the search once and then streams its rows through them. A malformed row (a null or
+ * non-finite position, arrays of different lengths, a k-sigma tolerance without uncertainties, an
+ * id that another row also has) fails the job with a {@link SparkRowException} naming the row's id
+ * and field. A well-formed spectrum the job refuses gets the job's error code and message in
+ * {@code failure_code} and {@code failure}.
  *
  * <p>Immutable and thread-safe; the operation is a lazy transformation.
+ * An operation object lives on the driver and is not {@code Serializable}; only its parameter
+ * record, which is, travels to the executors.
  */
 public final class SurveyIdentification {
 
@@ -101,9 +104,10 @@ public final class SurveyIdentification {
      * @param peakLists a table with the columns of {@link Schemas#PEAK_LISTS}
      * @return the identification of every row (lazy)
      * @throws SparkRowException when a column is missing or has another type
+     * @throws IllegalArgumentException when the table is streaming (use {@code foreachBatch})
      */
     public Result identify(Dataset<Row> peakLists) {
-        return new Result(Setups.run(peakLists, Schemas.PEAK_LISTS, "peak-list", parameters, (p, f) -> {
+        return new Result(Setups.run(peakLists, Schemas.PEAK_LISTS_COLUMNS, "peak-list", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.identify(f, row);
         }, Schemas.IDENTIFIED_SPECTRA, checkIds));
@@ -111,22 +115,24 @@ public final class SurveyIdentification {
 
     /**
      * @param peakRows a table with the columns of {@link Schemas#PEAK_ROWS}, one row per peak
-     * @return one row per spectrum id with the columns of {@link Schemas#PEAK_LISTS}, each array
-     *         ordered by the {@code peak} column; a spectrum's sigmas (intensities, widths) are null
-     *         unless every one of its peaks gives one. Reading its positions fails the job with a
+     * @return one row per spectrum id, of exactly the schema {@link Schemas#PEAK_LISTS} (every
+     *         column nullable), each array ordered by the {@code peak} column; a spectrum's sigmas
+     *         (intensities, widths) are null unless every one of its peaks gives one. The grouping
+     *         is a shuffle, so the table has {@code spark.sql.shuffle.partitions} partitions:
+     *         repartition it for a large table. Reading its positions fails the job with a
      *         {@link SparkRowException} naming the id and the peak when two rows of one id have the
      *         same peak (the order would be undefined), a peak is null, or the peaks of a spectrum
      *         do not run 0, 1, 2, ... (the identified peaks' numbers would not be the input's).
      */
     public static Dataset<Row> peakLists(Dataset<Row> peakRows) {
-        Fields.of(peakRows.schema(), Schemas.PEAK_ROWS, "peak-row");
+        Fields.of(peakRows.schema(), Schemas.PEAK_ROWS_COLUMNS, "peak-row");
         Dataset<Row> grouped = peakRows.groupBy(col("id")).agg(sort_array(collect_list(struct(col("peak"),
                 col("position"), col("sigma"), col("intensity"), col("width")))).as("p"));
         // The check is part of the positions column, so that no use of the peak lists escapes it.
         Column unique = udf(new UniquePeaks(), DataTypes.BooleanType).apply(col("id"), col("p").getField("peak"));
         return grouped.select(col("id"), when(unique, col("p").getField("position")).as("positions"),
                 whole(col("p"), "sigma", "sigmas"), whole(col("p"), "intensity", "intensities"),
-                whole(col("p"), "width", "widths"));
+                whole(col("p"), "width", "widths")).to(Schemas.PEAK_LISTS);
     }
 
     /**
@@ -286,9 +292,9 @@ public final class SurveyIdentification {
             double[] widths = f.optionalDoubles(row, id, 4, n, 0, false);
             if (kSigma) {
                 if (sigmas == null) {
-                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "sigmas", "is null, but the tolerance '"
-                            + p.tolerance() + "' needs every peak's standard uncertainty; give them or a width"
-                            + " tolerance such as \"0.02 nm\"");
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "sigmas", "is null, but the"
+                            + " tolerance '" + p.tolerance() + "' needs every peak's standard uncertainty; give"
+                            + " them or a width tolerance such as \"0.02 nm\"");
                 }
                 for (int i = 0; i < n; i++) {
                     if (sigmas[i] == 0) {

@@ -36,15 +36,17 @@ import org.ritzwerk.refdata.DataLines;
  * electron density, velocity, resolving power and the row's own noise seed), giving one
  * {@link Schemas#SPECTRA} row with the counts, the expected counts and the true lines.
  *
- * <p>The parameters are broadcast once; each partition makes the data context once and each
- * species' level model at its first use. The result of a row depends on that row alone (its
- * seed), so it is the same on any partitioning and any number of cores. A malformed row (or one
- * whose id another row has) fails the job with a {@link SparkRowException} naming the row's id
- * and field; a scene the engine
- * refuses (no line carries light in the grid) gets its code and message in {@code failure_code}
- * and {@code failure}.
+ * <p>Each call of {@link #synthesise} broadcasts the parameters once, when it is called (before
+ * any action; every action on its table reuses the broadcast); each partition makes the data
+ * context once and each species' level model at its first use. The result of a row depends on that
+ * row alone (its seed), so it is the same on any partitioning and any number of cores. A malformed
+ * row (or one whose id another row has) fails the job with a {@link SparkRowException} naming the
+ * row's id and field; a scene the engine refuses (no line carries light in the grid) gets its code
+ * and message in {@code failure_code} and {@code failure}.
  *
  * <p>Immutable and thread-safe; the operation is a lazy transformation.
+ * An operation object lives on the driver and is not {@code Serializable}; only its parameter
+ * record, which is, travels to the executors.
  */
 public final class SurveySynthesis {
 
@@ -91,9 +93,10 @@ public final class SurveySynthesis {
      * @param scenes a table with the columns of {@link Schemas#SCENES}
      * @return one spectrum per scene, {@link Schemas#SPECTRA} (lazy)
      * @throws SparkRowException when a column is missing or has another type
+     * @throws IllegalArgumentException when the table is streaming (use {@code foreachBatch})
      */
     public Dataset<Row> synthesise(Dataset<Row> scenes) {
-        return Setups.run(scenes, Schemas.SCENES, "scene", parameters, (p, f) -> {
+        return Setups.run(scenes, Schemas.SCENES_COLUMNS, "scene", parameters, (p, f) -> {
             Setup setup = new Setup(p);
             return row -> setup.synthesise(f, row);
         }, Schemas.SPECTRA, checkIds);

@@ -112,4 +112,23 @@ class ParametersTest {
         assertThrows(IllegalArgumentException.class, () -> p.withContinuum("none", Double.NaN, 5),
                 "continuum counts without a continuum");
     }
+
+    /**
+     * As the README says: the operation objects stay on the driver (not Serializable) and the
+     * parameter records, which travel to the executors, are Serializable (common practice: a
+     * documented property is checked).
+     */
+    @Test
+    void operationsStayOnTheDriverAndParametersTravel() {
+        for (Class<?> operation : List.of(SurveyIdentification.class, SurveyCalibration.class,
+                SurveySynthesis.class)) {
+            org.junit.jupiter.api.Assertions.assertFalse(java.io.Serializable.class.isAssignableFrom(operation),
+                    operation.getName());
+        }
+        for (Class<?> parameters : List.of(IdentificationParameters.class, CalibrationParameters.class,
+                SynthesisParameters.class)) {
+            org.junit.jupiter.api.Assertions.assertTrue(java.io.Serializable.class.isAssignableFrom(parameters),
+                    parameters.getName());
+        }
+    }
 }

@@ -6,10 +6,12 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import org.apache.spark.api.java.function.VoidFunction2;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.RowFactory;
 import org.apache.spark.sql.SparkSession;
+import org.apache.spark.sql.streaming.Trigger;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
@@ -78,5 +80,38 @@ class UserGuideTest {
         assertEquals(Fixtures.PIXELS, star.getList(star.fieldIndex("wavelengths_nm")).size());
         assertEquals(4, spark.read().parquet(out + "/spectra.parquet").filter("failure IS NULL").count());
         identified.spectra().unpersist();
+    }
+
+    /**
+     * The README's streaming line: the operations take batch tables, so a stream is identified
+     * micro-batch by micro-batch in foreachBatch, giving each spectrum what the batch table gives
+     * it (common practice: Spark's documented way to reuse batch code on a stream).
+     */
+    @Test
+    void aStreamIsIdentifiedInForeachBatch(@TempDir Path folder) throws Exception {
+        SparkSession spark = LocalSpark.session();
+        String peakFiles = folder.resolve("peaks").toString();
+        String out = folder.toString();
+        Fixtures.peakListTable(spark, Fixtures.peakLists(List.of("H I", "He II"), 4, 10, 2, 7L), 2).write()
+                .parquet(peakFiles);
+
+        // --- README: streaming ---
+        SurveyIdentification identification = SurveyIdentification.of(
+                IdentificationParameters.inWindow(List.of("H I", "He II"), List.of(), 360, 710)
+                        .withTolerance("5 sigma").withVelocitySearch(100e3));
+        Dataset<Row> stream = spark.readStream().schema(Schemas.PEAK_LISTS).parquet(peakFiles);
+        stream.writeStream()
+                .foreachBatch((VoidFunction2<Dataset<Row>, Long>) (batch, batchId) -> identification.identify(batch)
+                        .spectra().write().mode("append").parquet(out + "/identified.parquet"))
+                .option("checkpointLocation", out + "/checkpoint")
+                .trigger(Trigger.AvailableNow()) // README: .start() alone, a query that keeps running
+                .start().awaitTermination();
+        // --- end ---
+
+        List<Row> streamed = spark.read().parquet(out + "/identified.parquet").orderBy("id").collectAsList();
+        List<Row> batch = identification.identify(spark.read().parquet(peakFiles)).spectra().orderBy("id")
+                .collectAsList();
+        assertEquals(4, streamed.size());
+        assertEquals(batch, streamed);
     }
 }
