@@ -71,10 +71,12 @@ import tools.jackson.databind.node.ObjectNode;
  * (common practice: the GUM, JCGM 100:2008, 5.2 and F.1.2.3, inputs common to two results). In JSON
  * the rows are objects under {@code sharedUncertainties}. Each level named must be a level of that
  * species in the file with an uncertainty above 0; every level of a species with components needs
- * an uncertainty; the component's name must not be blank, and one component is one species'; a level
- * is given a component once; and a level's values squared may add up to its uncertainty squared but
- * not more (beyond {@link LevelList#SHARE_ROUNDING} of it: the rounding of decimal values), refused at
- * the row that makes them so. The matrix is positive semidefinite by construction.
+ * an uncertainty; the component's name must not be blank (spaces around it are dropped and a run of
+ * them inside reads as one, so {@code " limit"} and {@code "limit"} name one source), and one
+ * component is one species'; a level is given a component once; and a level's values squared may
+ * add up to its uncertainty squared but not more (beyond {@link LevelList#SHARE_ROUNDING} of it: the
+ * rounding of decimal values), refused at the row that makes them so. The matrix is positive
+ * semidefinite by construction.
  * <pre>
  * # shared-uncertainties
  * species,label,component,value
@@ -346,6 +348,9 @@ public final class LevelListFiles {
                 }
             } else if (component.isBlank()) {
                 s.rowProblem(row, "component", "data.missing-value", "component's name is empty (blank)");
+            } else {
+                // " limit" and "limit" name one source: spaces around a name and runs of them inside count as one
+                component = component.strip().replaceAll("\\s+", " ");
             }
             double value = s.signedNumber(row, "value", true);
             if (s.problems.size() != rowBefore) {

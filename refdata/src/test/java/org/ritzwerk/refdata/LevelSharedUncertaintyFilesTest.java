@@ -153,6 +153,17 @@ class LevelSharedUncertaintyFilesTest {
     }
 
     @Test
+    void spacesAroundAComponentNameDoNotMakeAnotherSource() {
+        // common practice: a CSV cell's surrounding spaces are not part of a name
+        String text = HEAD + "He I,1s2s 3S1,159855.97,0.002\nHe I,1s2p 3P2,169086.77,0.003\n"
+                + "# shared-uncertainties\nspecies,label,component,value\nHe I,1s2s 3S1, series  limit ,0.001\n"
+                + "He I,1s2p 3P2,series limit,-0.002\n";
+        LevelList list = LevelListFiles.readCsv(text, "spaces.csv");
+        assertEquals("series limit", list.shareComponent(0));
+        assertEquals(list.shareComponent(0), list.shareComponent(1));
+    }
+
+    @Test
     void theTwoSectionsReadInEitherOrder() {
         String levels = HEAD + "He I,1s2s 3S1,159855.97,0.002\nHe I,1s2p 3P2,169086.77,0.003\n"
                 + "He I,1s3s 3S1,183236.79,0.004\n";
