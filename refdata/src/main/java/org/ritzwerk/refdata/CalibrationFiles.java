@@ -102,6 +102,11 @@ public final class CalibrationFiles {
     }
 
     /**
+     * Writes through a temporary file renamed into place ({@link OutputFiles}): an old file of that
+     * name stays whole until the new one is complete. The first write of the process installs
+     * {@link OutputFiles}' shutdown hook (one per JVM), which removes temporary files an
+     * interrupted process leaves; a container that redeploys applications in one JVM keeps it.
+     *
      * @param file   where to write
      * @param record the calibration
      * @throws IOException when the file cannot be written
