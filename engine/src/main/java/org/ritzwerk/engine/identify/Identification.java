@@ -68,19 +68,26 @@ public final class Identification {
         double lo = peaks.shortestWavelength();
         double hi = peaks.longestWavelength();
         int count = lines.speciesList().size();
-        int[] strong = new int[count];
-        int[] found = new int[count];
+        boolean[] strong = new boolean[count];
+        boolean[] found = new boolean[count];
+        int withStrongFound = 0;
         for (int j : lines.linesAtLeast(strongLine)) {
             double w = lines.wavelength(j);
-            if (w >= lo && w <= hi || used[j]) {
-                strong[lines.speciesIndex(j)]++;
-                found[lines.speciesIndex(j)] += used[j] ? 1 : 0;
+            int s = lines.speciesIndex(j);
+            if (!found[s] && (w >= lo && w <= hi || used[j])) {
+                strong[s] = true;
+                if (used[j]) {
+                    found[s] = true;
+                    if (++withStrongFound == count) {
+                        return null; // every species shows a strong line: nothing to doubt (the usual case)
+                    }
+                }
             }
         }
         boolean[] doubted = null;
         for (int i = 0; i < linePlusOne.length; i++) {
             int s = linePlusOne[i] > 0 ? lines.speciesIndex(linePlusOne[i] - 1) : -1;
-            if (s >= 0 && strong[s] > 0 && found[s] == 0) {
+            if (s >= 0 && strong[s] && !found[s]) {
                 doubted = doubted == null ? new boolean[linePlusOne.length] : doubted;
                 doubted[i] = true;
             }
