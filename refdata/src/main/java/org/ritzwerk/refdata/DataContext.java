@@ -534,4 +534,13 @@ public final class DataContext {
         }
         return (LineList) set;
     }
+
+    /**
+     * @return its registry's providers in precedence order, e.g.
+     *         {@code DataContext[built-in ritzwerk-hydrogen-like, ...]} (no data is read)
+     */
+    @Override
+    public String toString() {
+        return "DataContext" + registry.toString().substring("DataRegistry".length());
+    }
 }

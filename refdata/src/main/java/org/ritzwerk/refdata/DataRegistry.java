@@ -298,4 +298,20 @@ public final class DataRegistry {
             return file.nuclear();
         }
     }
+
+    /**
+     * @return its providers in precedence order, each as its origin and id, e.g.
+     *         {@code DataRegistry[user file:/data/my-lines.csv, built-in ritzwerk-lamps, ...]} (no data
+     *         is read)
+     */
+    @Override
+    public String toString() {
+        StringBuilder text = new StringBuilder("DataRegistry[");
+        for (int k = 0; k < providers.size(); k++) {
+            Ranked ranked = providers.get(k);
+            text.append(k == 0 ? "" : ", ").append(ranked.origin().name().toLowerCase(java.util.Locale.ROOT)
+                    .replace('_', '-')).append(' ').append(ranked.provider().id());
+        }
+        return text.append(']').toString();
+    }
 }

@@ -141,6 +141,11 @@ class DataContextTest {
         assertEquals(85, mine.defaultMassNumber(37).orElseThrow());
         assertEquals(builtIn.nucleus(Species.parse("He II")), mine.nucleus(Species.parse("He II")));
         assertEquals("test-isotopes", mine.registry().list().get(0).info().id());
+        // printed in precedence order, the user's file first (it printed Class@hash; library review)
+        String built = builtIn.toString();
+        assertTrue(built.startsWith("DataContext[built-in ") && built.endsWith("]"), built);
+        assertEquals("DataContext[user file:" + file + ", " + built.substring("DataContext[".length()),
+                mine.toString());
     }
 
     @Test
