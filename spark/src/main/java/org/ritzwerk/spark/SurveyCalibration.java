@@ -100,6 +100,24 @@ public final class SurveyCalibration {
         }, Schemas.CALIBRATIONS, checkIds);
     }
 
+    /**
+     * Every row {@link #calibrate} would refuse, found in one pass without calibrating: the same
+     * schema check, id check (when on, {@link #withIdCheck}) and reading of each row, each refusal
+     * returned as a row instead of failing the job. An exposure the calibrator itself refuses (its
+     * {@code failure_code}) is not an input problem and is not listed.
+     *
+     * @param exposures a table with the columns of {@link Schemas#EXPOSURES}
+     * @return the problems, {@link Schemas#PROBLEMS} (lazy): one row per row whose id other rows
+     *         share, one per row with a malformed field (the first the operation would name), or
+     *         a single row for a missing or mistyped column; empty when {@code calibrate} would
+     *         refuse no row
+     * @throws IllegalArgumentException when the table is streaming
+     */
+    public Dataset<Row> validate(Dataset<Row> exposures) {
+        return Setups.validate(exposures, Schemas.EXPOSURES_COLUMNS, "exposure", parameters,
+                (p, f) -> row -> Setup.read(f, row, f.id(row)), checkIds);
+    }
+
     /** The columns of a calibration that applying it reads, in this order after the science columns. */
     private static final String[] APPLIED = {"id", "pixels", "medium", "centre_pixel", "half_range", "coefficients",
         "covariance", "lowest_pixel", "highest_pixel", "failure_code", "failure"};
@@ -173,10 +191,24 @@ public final class SurveyCalibration {
             this.prior = p.prior();
         }
 
-        InternalRow calibrate(Fields f, InternalRow row) {
-            String id = f.id(row);
+        /**
+         * Reads and checks one exposure's counts, as {@link #calibrate} and
+         * {@link SurveyCalibration#validate} both do.
+         *
+         * @return the counts, then the sigmas (null when not given)
+         * @throws SparkRowException naming the row's id and the field
+         */
+        static double[][] read(Fields f, InternalRow row, String id) {
             double[] counts = f.doubles(row, id, 1, -1, Double.NEGATIVE_INFINITY, false);
             double[] sigmas = f.optionalDoubles(row, id, 2, counts.length, 0, true);
+            return new double[][] {counts, sigmas};
+        }
+
+        InternalRow calibrate(Fields f, InternalRow row) {
+            String id = f.id(row);
+            double[][] read = read(f, row, id);
+            double[] counts = read[0];
+            double[] sigmas = read[1];
             int pixels = counts.length;
             Calibration calibration;
             try {
