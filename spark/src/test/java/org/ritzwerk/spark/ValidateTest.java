@@ -160,7 +160,31 @@ class ValidateTest {
                 List.of(RowFactory.create("zero-sigma", lamp, zeroSigma)),
                 List.of(RowFactory.create("twin", dark, null), RowFactory.create("twin", dark, null)));
         agrees(spark, Schemas.EXPOSURES, bad, good, job::validate, t -> job.calibrate(t).count());
-        assertNotNull(job.calibrate(spark.createDataFrame(List.of(good.get(1)), Schemas.EXPOSURES)).first()
-                .getAs("failure_code"), "the dark exposure is refused by the calibrator (common practice)");
+        Dataset<Row> calibrations = job.calibrate(spark.createDataFrame(good, Schemas.EXPOSURES)).cache();
+        assertNotNull(calibrations.where("id = 'dark'").first().getAs("failure_code"),
+                "the dark exposure is refused by the calibrator (common practice)");
+
+        // Applying: a spectrum of the refused calibration keeps its row (not a problem); the others are refused.
+        double[] star = new double[Fixtures.PIXELS];
+        Arrays.fill(star, 50);
+        double[] starNan = star.clone();
+        starNan[3] = Double.POSITIVE_INFINITY;
+        List<Row> science = List.of(RowFactory.create("star-1", "lamp", star), RowFactory.create("star-2", "dark",
+                star));
+        List<List<Row>> refused = List.of(
+                List.of(RowFactory.create("star-missing", "lamp-9", star)),
+                List.of(RowFactory.create("star-short", "lamp", new double[100])),
+                List.of(RowFactory.create("star-inf", "lamp", starNan)),
+                List.of(RowFactory.create("star-null", null, star)),
+                List.of(RowFactory.create("star-twin", "lamp", star), RowFactory.create("star-twin", "lamp", star)));
+        agrees(spark, Schemas.SCIENCE, refused, science, t -> SurveyCalibration.validateApply(t, calibrations),
+                t -> SurveyCalibration.apply(t, calibrations).count());
+        Dataset<Row> noCounts = spark.createDataFrame(science, Schemas.SCIENCE).drop("counts");
+        SparkRowException schema = assertThrows(SparkRowException.class, () -> SurveyCalibration.apply(noCounts,
+                calibrations));
+        List<Row> problems = SurveyCalibration.validateApply(noCounts, calibrations).collectAsList();
+        assertEquals(List.of(key(schema)), problems.stream().map(ValidateTest::key).toList(),
+                "a schema problem is one row, the operation's own refusal (common practice)");
+        calibrations.unpersist();
     }
 }
