@@ -357,6 +357,22 @@ public final class Schemas {
             optional("failure", DataTypes.StringType),
             optional("notes", STRINGS));
 
+    /**
+     * The problems the operations' {@code validate} methods find in an input table, one row per
+     * problem: {@code id} string, nullable (the row's id; null for a schema problem or a row whose
+     * id is null); {@code field} string, nullable (the column; null when the row as a whole is
+     * refused); {@code code} string ({@link SparkRowException#BAD_FIELD} or
+     * {@link SparkRowException#BAD_SCHEMA}; {@link SparkRowException#BAD_ROW} only should a check
+     * meet an engine refusal, which the checks are made to foresee); {@code message} string (exactly the message of the
+     * {@link SparkRowException} the operation fails with on that row, e.g. {@code row 'exp-17',
+     * field 'counts': element 3 is NaN; each must be finite}).
+     */
+    public static final StructType PROBLEMS = struct(
+            optional("id", DataTypes.StringType),
+            optional("field", DataTypes.StringType),
+            required("code", DataTypes.StringType),
+            required("message", DataTypes.StringType));
+
     private static StructField[] concat(StructField[] a, StructField[] b) {
         StructField[] all = new StructField[a.length + b.length];
         System.arraycopy(a, 0, all, 0, a.length);

@@ -14,6 +14,7 @@ import org.apache.spark.rdd.RDD;
 import org.apache.spark.sql.Column;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
 import org.apache.spark.sql.catalyst.InternalRow;
 import org.apache.spark.sql.types.DataTypes;
 import org.apache.spark.sql.types.StructType;
@@ -319,6 +320,132 @@ final class Setups {
                     throw new SparkRowException(SparkRowException.BAD_ROW, fields.id(row), null, e.getMessage());
                 }
             });
+        }
+    }
+
+    /**
+     * What a partition's setup does to check one row in Spark's form: the operation's own reading
+     * and checks of the row, without its work; a bad row throws the {@link SparkRowException} the
+     * operation throws for it.
+     *
+     * @param <P> the parameter record
+     */
+    @FunctionalInterface
+    interface CheckJob<P> extends Serializable {
+        /**
+         * @param parameters the broadcast parameters
+         * @param fields     the input's fields
+         * @return the partition's check of one row, with its setup made
+         */
+        java.util.function.Consumer<InternalRow> setUp(P parameters, Fields fields);
+    }
+
+    /**
+     * Every problem an operation would fail with, found in one pass: the same schema check, id
+     * check and per-row checks as {@link #run}, each refusal caught and returned as a
+     * {@link Schemas#PROBLEMS} row instead of failing the job. A schema problem (a missing column,
+     * another type) gives a table of that one row, made on the driver; each row whose id other rows
+     * share gives one row for it, and each row a field refusal (the first the operation meets, as
+     * it stops there). Lazy like the operations.
+     *
+     * @param table      the input
+     * @param expected   its documented schema
+     * @param role       the table's role, for messages
+     * @param parameters broadcast once
+     * @param job        the per-partition setup and row check
+     * @param checkIds   whether repeated ids are problems (as the operation's id check)
+     * @return the problems, empty when the operation would not refuse a row
+     * @throws IllegalArgumentException when the table is streaming
+     */
+    static <P> Dataset<Row> validate(Dataset<Row> table, StructType expected, String role, P parameters,
+            CheckJob<P> job, boolean checkIds) {
+        requireBatch(table, role);
+        Fields fields;
+        try {
+            fields = Fields.of(table.schema(), expected, role);
+        } catch (SparkRowException e) {
+            return table.sparkSession().createDataFrame(List.of(RowFactory.create(e.rowId(), e.field(), e.code(),
+                    e.getMessage())), Schemas.PROBLEMS);
+        }
+        Dataset<Row> checked = checkedColumns(table, fields, checkIds);
+        Fields read = Fields.of(checked.schema(), expected, role);
+        int copies = checked.schema().fieldIndex(COPIES);
+        Broadcast<byte[]> shared = JavaSparkContext.fromSparkContext(table.sparkSession().sparkContext())
+                .broadcast(serialise(parameters));
+        RDD<InternalRow> out = Catalyst.rows(checked).toJavaRDD()
+                .mapPartitions(new CheckTask<>(shared, read, copies, role, job)).rdd();
+        return Catalyst.frame(table.sparkSession(), out, Schemas.PROBLEMS);
+    }
+
+    /** @return the problem row of a refusal, {@link Schemas#PROBLEMS} in Spark's form */
+    static InternalRow problem(SparkRowException e) {
+        return Catalyst.row(Catalyst.utf8(e.rowId()), Catalyst.utf8(e.field()), Catalyst.utf8(e.code()),
+                Catalyst.utf8(e.getMessage()));
+    }
+
+    /**
+     * One partition of a validation: the job's check setup once, then each row's problems
+     * (a repeated id, then the row's first refusal), lazily.
+     *
+     * @param <P> the parameter record
+     */
+    static final class CheckTask<P> implements FlatMapFunction<Iterator<InternalRow>, InternalRow> {
+        private static final long serialVersionUID = 1L;
+        private final Broadcast<byte[]> shared;
+        private final Fields fields;
+        private final int copies;
+        private final String role;
+        private final CheckJob<P> job;
+
+        CheckTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, CheckJob<P> job) {
+            this.shared = shared;
+            this.fields = fields;
+            this.copies = copies;
+            this.role = role;
+            this.job = job;
+        }
+
+        @Override
+        public Iterator<InternalRow> call(Iterator<InternalRow> rows) {
+            if (!rows.hasNext()) {
+                return rows;
+            }
+            @SuppressWarnings("unchecked")
+            P parameters = (P) deserialise(shared.value());
+            java.util.function.Consumer<InternalRow> check = job.setUp(parameters, fields);
+            java.util.ArrayDeque<InternalRow> found = new java.util.ArrayDeque<>(2);
+            return new Iterator<>() {
+                @Override
+                public boolean hasNext() {
+                    while (found.isEmpty() && rows.hasNext()) {
+                        examine(rows.next());
+                    }
+                    return !found.isEmpty();
+                }
+
+                @Override
+                public InternalRow next() {
+                    if (!hasNext()) {
+                        throw new java.util.NoSuchElementException();
+                    }
+                    return found.poll();
+                }
+
+                private void examine(InternalRow row) {
+                    if (!row.isNullAt(copies)) {
+                        found.add(problem(repeatedId(fields.id(row), row.getLong(copies), role)));
+                    }
+                    try {
+                        check.accept(row);
+                    } catch (SparkRowException e) {
+                        found.add(problem(e));
+                    } catch (IllegalArgumentException | ArithmeticException e) {
+                        // As the operation names a refusal its checks did not foresee.
+                        found.add(problem(new SparkRowException(SparkRowException.BAD_ROW, fields.id(row), null,
+                                e.getMessage())));
+                    }
+                }
+            };
         }
     }
 

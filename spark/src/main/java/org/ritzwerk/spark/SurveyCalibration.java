@@ -100,6 +100,24 @@ public final class SurveyCalibration {
         }, Schemas.CALIBRATIONS, checkIds);
     }
 
+    /**
+     * Every row {@link #calibrate} would refuse, found in one pass without calibrating: the same
+     * schema check, id check (when on, {@link #withIdCheck}) and reading of each row, each refusal
+     * returned as a row instead of failing the job. An exposure the calibrator itself refuses (its
+     * {@code failure_code}) is not an input problem and is not listed.
+     *
+     * @param exposures a table with the columns of {@link Schemas#EXPOSURES}
+     * @return the problems, {@link Schemas#PROBLEMS} (lazy): one row per row whose id other rows
+     *         share, one per row with a malformed field (the first the operation would name), or
+     *         a single row for a missing or mistyped column; empty when {@code calibrate} would
+     *         refuse no row
+     * @throws IllegalArgumentException when the table is streaming
+     */
+    public Dataset<Row> validate(Dataset<Row> exposures) {
+        return Setups.validate(exposures, Schemas.EXPOSURES_COLUMNS, "exposure", parameters,
+                (p, f) -> row -> Setup.read(f, row, f.id(row)), checkIds);
+    }
+
     /** The columns of a calibration that applying it reads, in this order after the science columns. */
     private static final String[] APPLIED = {"id", "pixels", "medium", "centre_pixel", "half_range", "coefficients",
         "covariance", "lowest_pixel", "highest_pixel", "failure_code", "failure"};
@@ -119,6 +137,43 @@ public final class SurveyCalibration {
      * @throws IllegalArgumentException when either table is streaming (use {@code foreachBatch})
      */
     public static Dataset<Row> apply(Dataset<Row> science, Dataset<Row> calibrations) {
+        return joined(science, calibrations).mapPartitions(new ApplyTask(), Encoders.row(Schemas.CALIBRATED));
+    }
+
+    /**
+     * Every science spectrum {@link #apply} would refuse, found in one pass: the same schema
+     * checks, join and checks of each spectrum (a null field, a repeated id, a missing, repeated
+     * or unusable calibration, a pixel-count mismatch, a non-finite count), each refusal returned
+     * as a row instead of failing the job. A spectrum whose calibration was refused keeps its row
+     * in {@code apply} (its {@code failure_code}) and is not listed.
+     *
+     * @param science      a table with the columns of {@link Schemas#SCIENCE}
+     * @param calibrations a table with the columns of {@link Schemas#CALIBRATIONS}
+     * @return the problems, {@link Schemas#PROBLEMS} (lazy): one row per refused spectrum, or a
+     *         single row for a missing or mistyped column of either table; empty when
+     *         {@code apply} would refuse no spectrum
+     * @throws IllegalArgumentException when either table is streaming
+     */
+    public static Dataset<Row> validateApply(Dataset<Row> science, Dataset<Row> calibrations) {
+        Dataset<Row> joined;
+        try {
+            joined = joined(science, calibrations);
+        } catch (SparkRowException e) {
+            return science.sparkSession().createDataFrame(List.of(RowFactory.create(e.rowId(), e.field(), e.code(),
+                    e.getMessage())), Schemas.PROBLEMS);
+        }
+        return joined.flatMap((org.apache.spark.api.java.function.FlatMapFunction<Row, Row>) row -> {
+            try {
+                ApplyTask.apply(row);
+                return java.util.Collections.emptyIterator();
+            } catch (SparkRowException e) {
+                return List.of(RowFactory.create(e.rowId(), e.field(), e.code(), e.getMessage())).iterator();
+            }
+        }, Encoders.row(Schemas.PROBLEMS));
+    }
+
+    /** The science spectra, checked, joined to their calibrations as {@link ApplyTask} reads them. */
+    private static Dataset<Row> joined(Dataset<Row> science, Dataset<Row> calibrations) {
         Setups.requireBatch(science, "science");
         Setups.requireBatch(calibrations, "calibration");
         Dataset<Row> left = Setups.checkedColumns(science, Fields.of(science.schema(), Schemas.SCIENCE_COLUMNS,
@@ -141,7 +196,7 @@ public final class SurveyCalibration {
                         col("c_medium"), col("c_centre_pixel"), col("c_half_range"), col("c_coefficients"),
                         col("c_covariance"), col("c_lowest_pixel"), col("c_highest_pixel"), col("c_failure_code"),
                         col("c_failure"), left.col(Setups.COPIES), col("c_copies"));
-        return joined.mapPartitions(new ApplyTask(), Encoders.row(Schemas.CALIBRATED));
+        return joined;
     }
 
     /** The lamp set, calibrator and prior of one partition. */
@@ -173,10 +228,24 @@ public final class SurveyCalibration {
             this.prior = p.prior();
         }
 
-        InternalRow calibrate(Fields f, InternalRow row) {
-            String id = f.id(row);
+        /**
+         * Reads and checks one exposure's counts, as {@link #calibrate} and
+         * {@link SurveyCalibration#validate} both do.
+         *
+         * @return the counts, then the sigmas (null when not given)
+         * @throws SparkRowException naming the row's id and the field
+         */
+        static double[][] read(Fields f, InternalRow row, String id) {
             double[] counts = f.doubles(row, id, 1, -1, Double.NEGATIVE_INFINITY, false);
             double[] sigmas = f.optionalDoubles(row, id, 2, counts.length, 0, true);
+            return new double[][] {counts, sigmas};
+        }
+
+        InternalRow calibrate(Fields f, InternalRow row) {
+            String id = f.id(row);
+            double[][] read = read(f, row, id);
+            double[] counts = read[0];
+            double[] sigmas = read[1];
             int pixels = counts.length;
             Calibration calibration;
             try {

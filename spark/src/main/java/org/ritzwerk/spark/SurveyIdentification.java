@@ -114,6 +114,26 @@ public final class SurveyIdentification {
     }
 
     /**
+     * Every row {@link #identify} would refuse, found in one pass without identifying: the same
+     * schema check, id check (when on, {@link #withIdCheck}) and reading of each row, each refusal
+     * returned as a row instead of failing the job. A spectrum the search itself refuses (its
+     * {@code failure_code}) is not an input problem and is not listed.
+     *
+     * @param peakLists a table with the columns of {@link Schemas#PEAK_LISTS}
+     * @return the problems, {@link Schemas#PROBLEMS} (lazy): one row per row whose id other rows
+     *         share, one per row with a malformed field (the first the operation would name), or
+     *         a single row for a missing or mistyped column; empty when {@code identify} would
+     *         refuse no row
+     * @throws IllegalArgumentException when the table is streaming
+     */
+    public Dataset<Row> validate(Dataset<Row> peakLists) {
+        return Setups.validate(peakLists, Schemas.PEAK_LISTS_COLUMNS, "peak-list", parameters, (p, f) -> {
+            Setup setup = new Setup(p);
+            return row -> setup.read(f, row);
+        }, checkIds);
+    }
+
+    /**
      * @param peakRows a table with the columns of {@link Schemas#PEAK_ROWS}, one row per peak
      * @return one row per spectrum id, of exactly the schema {@link Schemas#PEAK_LISTS} (every
      *         column nullable), each array ordered by the {@code peak} column; a spectrum's sigmas
@@ -283,7 +303,17 @@ public final class SurveyIdentification {
             return builder.build();
         }
 
-        InternalRow identify(Fields f, InternalRow row) {
+        /** One row's fields as the search takes them, read and checked by {@link #read}. */
+        private record Read(double[] positions, double[] intensities, double[] widths, PeakList peaks) {
+        }
+
+        /**
+         * Reads and checks one row, as {@link #identify} and {@link SurveyIdentification#validate}
+         * both do: the one place a peak list is refused.
+         *
+         * @throws SparkRowException naming the row's id and the field
+         */
+        Read read(Fields f, InternalRow row) {
             String id = f.id(row);
             double[] positions = f.doubles(row, id, 1, -1, 0, true);
             int n = positions.length;
@@ -309,6 +339,16 @@ public final class SurveyIdentification {
             } catch (RuntimeException e) {
                 throw new SparkRowException(SparkRowException.BAD_FIELD, id, "positions", e.getMessage());
             }
+            return new Read(positions, intensities, widths, peaks);
+        }
+
+        InternalRow identify(Fields f, InternalRow row) {
+            Read read = read(f, row);
+            double[] positions = read.positions();
+            int n = positions.length;
+            double[] intensities = read.intensities();
+            double[] widths = read.widths();
+            PeakList peaks = read.peaks();
             try {
                 Candidates candidates = fixed != null ? fixed : candidates(search.candidateWindow(peaks));
                 IdentificationSearch.Report report = search.run(peaks, candidates.catalog());

@@ -102,6 +102,28 @@ public final class SurveySynthesis {
         }, Schemas.SPECTRA, checkIds);
     }
 
+    /**
+     * Every row {@link #synthesise} would refuse, found in one pass without rendering: the same
+     * schema check, id check (when on, {@link #withIdCheck}) and checks of each row's fields
+     * (species that cannot be read, are named twice or have no model; temperatures, densities,
+     * velocities and resolving powers out of range), each refusal returned as a row instead of
+     * failing the job. A scene the engine refuses while rendering it (its {@code failure_code}, no
+     * line carrying light) is not an input problem and is not listed.
+     *
+     * @param scenes a table with the columns of {@link Schemas#SCENES}
+     * @return the problems, {@link Schemas#PROBLEMS} (lazy): one row per row whose id other rows
+     *         share, one per row with a malformed field (the first the operation would name), or
+     *         a single row for a missing or mistyped column; empty when {@code synthesise} would
+     *         refuse no row
+     * @throws IllegalArgumentException when the table is streaming
+     */
+    public Dataset<Row> validate(Dataset<Row> scenes) {
+        return Setups.validate(scenes, Schemas.SCENES_COLUMNS, "scene", parameters, (p, f) -> {
+            Setup setup = new Setup(p);
+            return row -> setup.check(f, row);
+        }, checkIds);
+    }
+
     /** The data context, grid and species models of one partition. Not thread-safe (one task). */
     private static final class Setup {
         private final SynthesisParameters p;
@@ -157,6 +179,68 @@ public final class SurveySynthesis {
                 } catch (RuntimeException e) {
                     throw new IllegalArgumentException("lineSets " + set + ": " + e.getMessage(), e);
                 }
+            }
+        }
+
+        /**
+         * The checks {@link #synthesise} makes of a row before it renders, in its order and with its
+         * messages, without rendering: the fields read, the species parsed, told apart and modelled,
+         * the ranges checked and the engine's own range checks of the scene's settings. Kept step
+         * for step with {@code synthesise} (SurveySynthesisTest compares the two row by row).
+         *
+         * @throws SparkRowException naming the row's id and the field, as {@code synthesise} would
+         */
+        void check(Fields f, InternalRow row) {
+            String id = f.id(row);
+            String[] names = f.strings(row, id, 1, !lineLists.isEmpty());
+            if (names.length > 0) {
+                f.optionalDoubles(row, id, 2, names.length, 0, true);
+            }
+            double temperature = f.number(row, id, 3);
+            double density = f.optionalNumber(row, id, 4);
+            double velocity = f.number(row, id, 5);
+            double resolvingPower = f.number(row, id, 6);
+            f.whole(row, id, 7);
+            java.util.Set<Species> named = new java.util.HashSet<>();
+            for (String name : names) {
+                Species species;
+                try {
+                    species = Species.parse(name.strip());
+                } catch (RuntimeException e) {
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "species", e.getMessage());
+                }
+                if (!named.add(species)) {
+                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "species", "names "
+                            + species.notation() + " twice (as '" + name.strip() + "'); give each species once");
+                }
+            }
+            if (!(temperature > 0)) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "temperature_k", "is " + temperature
+                        + "; it must be above 0 K");
+            }
+            if (!Double.isNaN(density) && !(density > 0)) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "electron_density_m3", "is " + density
+                        + "; it must be above 0 per cubic metre, or null");
+            }
+            if (!(Math.abs(velocity) < PhysicalConstants.C / 10)) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "velocity_m_s", "is " + velocity
+                        + "; its magnitude must be below a tenth of the speed of light");
+            }
+            if (!(resolvingPower >= 1 && resolvingPower <= 1e9)) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "resolving_power", "is "
+                        + resolvingPower + "; it must be 1 to 1e9, as synth --resolving-power takes it");
+            }
+            Scene.Builder builder = Scene.builder(grid).medium(medium).naturalWidths(p.shapes().naturalWidths())
+                    .components(p.shapes().components()).renderer(renderer).nMax(p.nMax()).peakCounts(p.peakCounts())
+                    .collisionalFwhm(p.shapes().collisionalFwhmNm());
+            set(id, "resolving_power", () -> builder.instrument(Instrument.ofResolvingPower(resolvingPower)));
+            set(id, "temperature_k", () -> builder.temperature(temperature));
+            set(id, "velocity_m_s", () -> builder.velocity(velocity));
+            if (!Double.isNaN(density)) {
+                set(id, "electron_density_m3", () -> builder.electronDensity(density));
+            }
+            for (String name : names) {
+                atoms(id, name);
             }
         }
 
