@@ -183,24 +183,40 @@ public final class SurveySynthesis {
         }
 
         /**
-         * The checks {@link #synthesise} makes of a row before it renders, in its order and with its
-         * messages, without rendering: the fields read, the species parsed, told apart and modelled,
-         * the ranges checked and the engine's own range checks of the scene's settings. Kept step
-         * for step with {@code synthesise} (SurveySynthesisTest compares the two row by row).
+         * The checks {@link #synthesise} makes of a row before it renders, without rendering: the
+         * fields read, the species parsed, told apart and modelled, the ranges checked and the
+         * engine's own range checks of the scene's settings ({@link #read}, which both use, then
+         * each species' model in the row's order, as {@code synthesise} asks for them).
          *
          * @throws SparkRowException naming the row's id and the field, as {@code synthesise} would
          */
         void check(Fields f, InternalRow row) {
+            Read scene = read(f, row);
+            for (String name : scene.names()) {
+                atoms(scene.id(), name);
+            }
+        }
+
+        /** A scene row read and checked: what {@link #synthesise} needs before it adds the species. */
+        private record Read(String id, String[] names, double[] abundances, double temperature, long seed,
+                Scene.Builder builder) {
+        }
+
+        /**
+         * @return the row's fields, each checked, and a scene builder with the grid, the parameters'
+         *         settings and the row's instrument, temperature, velocity and density
+         * @throws SparkRowException naming the row's id and the field
+         */
+        private Read read(Fields f, InternalRow row) {
             String id = f.id(row);
             String[] names = f.strings(row, id, 1, !lineLists.isEmpty());
-            if (names.length > 0) {
-                f.optionalDoubles(row, id, 2, names.length, 0, true);
-            }
+            // A lamp scene (no species) may give an empty abundance list, as long as its species.
+            double[] abundances = names.length == 0 ? null : f.optionalDoubles(row, id, 2, names.length, 0, true);
             double temperature = f.number(row, id, 3);
             double density = f.optionalNumber(row, id, 4);
             double velocity = f.number(row, id, 5);
             double resolvingPower = f.number(row, id, 6);
-            f.whole(row, id, 7);
+            long seed = f.whole(row, id, 7);
             java.util.Set<Species> named = new java.util.HashSet<>();
             for (String name : names) {
                 Species species;
@@ -233,15 +249,14 @@ public final class SurveySynthesis {
             Scene.Builder builder = Scene.builder(grid).medium(medium).naturalWidths(p.shapes().naturalWidths())
                     .components(p.shapes().components()).renderer(renderer).nMax(p.nMax()).peakCounts(p.peakCounts())
                     .collisionalFwhm(p.shapes().collisionalFwhmNm());
+            // The engine's own range checks, each refusal naming the row's field.
             set(id, "resolving_power", () -> builder.instrument(Instrument.ofResolvingPower(resolvingPower)));
             set(id, "temperature_k", () -> builder.temperature(temperature));
             set(id, "velocity_m_s", () -> builder.velocity(velocity));
             if (!Double.isNaN(density)) {
                 set(id, "electron_density_m3", () -> builder.electronDensity(density));
             }
-            for (String name : names) {
-                atoms(id, name);
-            }
+            return new Read(id, names, abundances, temperature, seed, builder);
         }
 
         /** A level list's Ritz lines (E1 and LS rules, the context's A values), computed at first use. */
@@ -295,54 +310,13 @@ public final class SurveySynthesis {
         }
 
         InternalRow synthesise(Fields f, InternalRow row) {
-            String id = f.id(row);
-            String[] names = f.strings(row, id, 1, !lineLists.isEmpty());
-            // A lamp scene (no species) may give an empty abundance list, as long as its species.
-            double[] abundances = names.length == 0 ? null : f.optionalDoubles(row, id, 2, names.length, 0, true);
-            double temperature = f.number(row, id, 3);
-            double density = f.optionalNumber(row, id, 4);
-            double velocity = f.number(row, id, 5);
-            double resolvingPower = f.number(row, id, 6);
-            long seed = f.whole(row, id, 7);
-            java.util.Set<Species> named = new java.util.HashSet<>();
-            for (String name : names) {
-                Species species;
-                try {
-                    species = Species.parse(name.strip());
-                } catch (RuntimeException e) {
-                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "species", e.getMessage());
-                }
-                if (!named.add(species)) {
-                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "species", "names "
-                            + species.notation() + " twice (as '" + name.strip() + "'); give each species once");
-                }
-            }
-            if (!(temperature > 0)) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "temperature_k", "is " + temperature
-                        + "; it must be above 0 K");
-            }
-            if (!Double.isNaN(density) && !(density > 0)) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "electron_density_m3", "is " + density
-                        + "; it must be above 0 per cubic metre, or null");
-            }
-            if (!(Math.abs(velocity) < PhysicalConstants.C / 10)) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "velocity_m_s", "is " + velocity
-                        + "; its magnitude must be below a tenth of the speed of light");
-            }
-            if (!(resolvingPower >= 1 && resolvingPower <= 1e9)) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "resolving_power", "is "
-                        + resolvingPower + "; it must be 1 to 1e9, as synth --resolving-power takes it");
-            }
-            Scene.Builder builder = Scene.builder(grid).medium(medium).naturalWidths(p.shapes().naturalWidths())
-                    .components(p.shapes().components()).renderer(renderer).nMax(p.nMax()).peakCounts(p.peakCounts())
-                    .collisionalFwhm(p.shapes().collisionalFwhmNm());
-            // The engine's own range checks, each refusal naming the row's field.
-            set(id, "resolving_power", () -> builder.instrument(Instrument.ofResolvingPower(resolvingPower)));
-            set(id, "temperature_k", () -> builder.temperature(temperature));
-            set(id, "velocity_m_s", () -> builder.velocity(velocity));
-            if (!Double.isNaN(density)) {
-                set(id, "electron_density_m3", () -> builder.electronDensity(density));
-            }
+            Read read = read(f, row);
+            String id = read.id();
+            String[] names = read.names();
+            double[] abundances = read.abundances();
+            double temperature = read.temperature();
+            long seed = read.seed();
+            Scene.Builder builder = read.builder();
             // The command line's order: one-electron ions first, then alkali atoms.
             for (int k = 0; k < names.length; k++) {
                 for (Setups.Ion ion : atoms(id, names[k]).ions()) {
