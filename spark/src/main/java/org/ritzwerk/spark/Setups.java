@@ -278,20 +278,21 @@ final class Setups {
     }
 
     /**
-     * One partition on the fast path: the job's setup once, then one output row per input row,
-     * lazily; a row whose id is repeated is refused before its work.
+     * What the tasks of one partition share: the broadcast parameters, the input's fields, the
+     * column of an id's copies (null where the id is unique), the table's role and the job.
      *
      * @param <P> the parameter record
+     * @param <J> the job's per-partition setup
      */
-    static final class InternalTask<P> implements FlatMapFunction<Iterator<InternalRow>, InternalRow> {
+    abstract static class PartitionTask<P, J> implements FlatMapFunction<Iterator<InternalRow>, InternalRow> {
         private static final long serialVersionUID = 1L;
         private final Broadcast<byte[]> shared;
-        private final Fields fields;
-        private final int copies;
-        private final String role;
-        private final InternalJob<P> job;
+        final Fields fields;
+        final int copies;
+        final String role;
+        final J job;
 
-        InternalTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, InternalJob<P> job) {
+        PartitionTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, J job) {
             this.shared = shared;
             this.fields = fields;
             this.copies = copies;
@@ -299,14 +300,32 @@ final class Setups {
             this.job = job;
         }
 
+        /** @return the parameter record, read from the broadcast (once per partition) */
+        @SuppressWarnings("unchecked")
+        final P parameters() {
+            return (P) deserialise(shared.value());
+        }
+    }
+
+    /**
+     * One partition on the fast path: the job's setup once, then one output row per input row,
+     * lazily; a row whose id is repeated is refused before its work.
+     *
+     * @param <P> the parameter record
+     */
+    static final class InternalTask<P> extends PartitionTask<P, InternalJob<P>> {
+        private static final long serialVersionUID = 1L;
+
+        InternalTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, InternalJob<P> job) {
+            super(shared, fields, copies, role, job);
+        }
+
         @Override
         public Iterator<InternalRow> call(Iterator<InternalRow> rows) {
             if (!rows.hasNext()) {
                 return rows;
             }
-            @SuppressWarnings("unchecked")
-            P parameters = (P) deserialise(shared.value());
-            Function<InternalRow, InternalRow> mapping = job.setUp(parameters, fields);
+            Function<InternalRow, InternalRow> mapping = job.setUp(parameters(), fields);
             return map(rows, row -> {
                 if (!row.isNullAt(copies)) {
                     throw repeatedId(fields.id(row), row.getLong(copies), role);
@@ -389,20 +408,11 @@ final class Setups {
      *
      * @param <P> the parameter record
      */
-    static final class CheckTask<P> implements FlatMapFunction<Iterator<InternalRow>, InternalRow> {
+    static final class CheckTask<P> extends PartitionTask<P, CheckJob<P>> {
         private static final long serialVersionUID = 1L;
-        private final Broadcast<byte[]> shared;
-        private final Fields fields;
-        private final int copies;
-        private final String role;
-        private final CheckJob<P> job;
 
         CheckTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, CheckJob<P> job) {
-            this.shared = shared;
-            this.fields = fields;
-            this.copies = copies;
-            this.role = role;
-            this.job = job;
+            super(shared, fields, copies, role, job);
         }
 
         @Override
@@ -410,9 +420,7 @@ final class Setups {
             if (!rows.hasNext()) {
                 return rows;
             }
-            @SuppressWarnings("unchecked")
-            P parameters = (P) deserialise(shared.value());
-            java.util.function.Consumer<InternalRow> check = job.setUp(parameters, fields);
+            java.util.function.Consumer<InternalRow> check = job.setUp(parameters(), fields);
             java.util.ArrayDeque<InternalRow> found = new java.util.ArrayDeque<>(2);
             return new Iterator<>() {
                 @Override
