@@ -383,8 +383,7 @@ final class Setups {
         try {
             fields = Fields.of(table.schema(), expected, role);
         } catch (SparkRowException e) {
-            return table.sparkSession().createDataFrame(List.of(RowFactory.create(e.rowId(), e.field(), e.code(),
-                    e.getMessage())), Schemas.PROBLEMS);
+            return problemTable(table.sparkSession(), e);
         }
         Dataset<Row> checked = checkedColumns(table, fields, checkIds);
         Fields read = Fields.of(checked.schema(), expected, role);
@@ -394,6 +393,16 @@ final class Setups {
         RDD<InternalRow> out = Catalyst.rows(checked).toJavaRDD()
                 .mapPartitions(new CheckTask<>(shared, read, copies, role, job)).rdd();
         return Catalyst.frame(table.sparkSession(), out, Schemas.PROBLEMS);
+    }
+
+    /** @return the problem row of a refusal, {@link Schemas#PROBLEMS} */
+    static Row problemRow(SparkRowException e) {
+        return RowFactory.create(e.rowId(), e.field(), e.code(), e.getMessage());
+    }
+
+    /** @return a {@link Schemas#PROBLEMS} table of one refusal made on the driver (a schema problem) */
+    static Dataset<Row> problemTable(org.apache.spark.sql.SparkSession spark, SparkRowException e) {
+        return spark.createDataFrame(List.of(problemRow(e)), Schemas.PROBLEMS);
     }
 
     /** @return the problem row of a refusal, {@link Schemas#PROBLEMS} in Spark's form */

@@ -159,15 +159,14 @@ public final class SurveyCalibration {
         try {
             joined = joined(science, calibrations);
         } catch (SparkRowException e) {
-            return science.sparkSession().createDataFrame(List.of(RowFactory.create(e.rowId(), e.field(), e.code(),
-                    e.getMessage())), Schemas.PROBLEMS);
+            return Setups.problemTable(science.sparkSession(), e);
         }
         return joined.flatMap((org.apache.spark.api.java.function.FlatMapFunction<Row, Row>) row -> {
             try {
                 ApplyTask.apply(row);
                 return java.util.Collections.emptyIterator();
             } catch (SparkRowException e) {
-                return List.of(RowFactory.create(e.rowId(), e.field(), e.code(), e.getMessage())).iterator();
+                return List.of(Setups.problemRow(e)).iterator();
             }
         }, Encoders.row(Schemas.PROBLEMS));
     }
