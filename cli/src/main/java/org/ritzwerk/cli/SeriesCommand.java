@@ -301,8 +301,9 @@ final class SeriesCommand implements Callable<Integer> {
             parameters.add("parameter", "limit, model-averaged", average.limitPerCm(), average.uncertaintyPerCm(),
                     null, "cm-1");
             for (int s = 0; s < fit.series().size(); s++) {
-                double[] d = fit.modelAveragedDefects(s);
-                double[] u = fit.modelAveragedDefectUncertainties(s);
+                SeriesFit.DefectAverage defects = fit.modelAveragedDefectsWithUncertainties(s);
+                double[] d = defects.defects();
+                double[] u = defects.uncertainties();
                 for (int k = 0; k < d.length; k++) {
                     parameters.add("parameter", fit.series().get(s).name() + " d" + 2 * k + ", model-averaged", d[k],
                             u[k], null, "");

@@ -130,6 +130,49 @@ public final class SeriesFit {
     }
 
     /**
+     * One series' quantum-defect coefficients averaged over the models tried
+     * ({@link #modelAveragedDefects(int)}), with their unconditional standard uncertainties.
+     *
+     * @param defects       d0, d2, ... up to the most terms any model tried gave the series
+     * @param uncertainties their standard uncertainties, dimensionless, in the same order
+     */
+    public record DefectAverage(double[] defects, double[] uncertainties) {
+
+        /** Copies both arrays. */
+        public DefectAverage {
+            defects = defects.clone();
+            uncertainties = uncertainties.clone();
+        }
+
+        @Override
+        public double[] defects() {
+            return defects.clone();
+        }
+
+        @Override
+        public double[] uncertainties() {
+            return uncertainties.clone();
+        }
+
+        @Override
+        public boolean equals(Object other) {
+            return other instanceof DefectAverage a && Arrays.equals(defects, a.defects)
+                    && Arrays.equals(uncertainties, a.uncertainties);
+        }
+
+        @Override
+        public int hashCode() {
+            return 31 * Arrays.hashCode(defects) + Arrays.hashCode(uncertainties);
+        }
+
+        @Override
+        public String toString() {
+            return "DefectAverage[defects=" + Arrays.toString(defects) + ", uncertainties="
+                    + Arrays.toString(uncertainties) + "]";
+        }
+    }
+
+    /**
      * The refit without one member ({@link #bestDeletion()}): the member left out and what the fit
      * then gives.
      *
@@ -572,6 +615,18 @@ public final class SeriesFit {
         return averagedDefects(s)[1];
     }
 
+    /**
+     * {@link #modelAveragedDefects} and {@link #modelAveragedDefectUncertainties} from one averaging.
+     *
+     * @param s series index
+     * @return series s's averaged defect coefficients and their uncertainties
+     * @throws IllegalArgumentException for a series index out of range
+     */
+    public DefectAverage modelAveragedDefectsWithUncertainties(int s) {
+        double[][] a = averagedDefects(s);
+        return new DefectAverage(a[0], a[1]);
+    }
+
     /** @return {values, uncertainties} of series s's averaged defect coefficients */
     private double[][] averagedDefects(int s) {
         checkSeries(s);
@@ -641,7 +696,7 @@ public final class SeriesFit {
         List<String> lacking = new ArrayList<>();
         String firstReason = null;
         for (int m = 0; m < w.length; m++) {
-            Prediction p = prediction(tried.get(m), s, k);
+            Prediction p = tried.get(m) == chosen ? mine : prediction(tried.get(m), s, k);
             if (p.member().isPresent()) {
                 x[m] = p.member().get().energyPerCm();
                 double u = p.uncertaintyPerCm(1);

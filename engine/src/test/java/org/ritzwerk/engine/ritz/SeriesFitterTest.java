@@ -559,11 +559,16 @@ class SeriesFitterTest {
                 v[k] += w.get(m) * (ud[m][k] * ud[m][k] + (d[m][k] - x[k]) * (d[m][k] - x[k]));
             }
         }
+        SeriesFit.DefectAverage both = fit.modelAveragedDefectsWithUncertainties(0);
         for (int k = 0; k < most; k++) {
             assertEquals(x[k], fit.modelAveragedDefects(0)[k], 1e-6 * Math.sqrt(v[k]), "d" + 2 * k);
             assertEquals(Math.sqrt(v[k]), fit.modelAveragedDefectUncertainties(0)[k], 1e-4 * Math.sqrt(v[k]),
                     "u(d" + 2 * k + ")");
+            // the one-call form gives the same numbers, bit for bit
+            assertEquals(fit.modelAveragedDefects(0)[k], both.defects()[k], 0.0);
+            assertEquals(fit.modelAveragedDefectUncertainties(0)[k], both.uncertainties()[k], 0.0);
         }
+        assertEquals(most, both.uncertainties().length);
         SeriesFit.AveragedPrediction p = fit.modelAveragedPredictions(70).get(0);
         assertEquals(energy, p.energyPerCm().orElseThrow(), 1e-6 * Math.sqrt(ve));
         assertEquals(Math.sqrt(ve), p.uncertaintyPerCm().orElseThrow(), 1e-4 * Math.sqrt(ve));
