@@ -138,33 +138,43 @@ public final class SeriesFit {
      */
     public record DefectAverage(double[] defects, double[] uncertainties) {
 
-        /** Copies both arrays. */
+        /**
+         * Copies both arrays.
+         *
+         * @param defects       d0, d2, ...
+         * @param uncertainties their standard uncertainties
+         */
         public DefectAverage {
             defects = defects.clone();
             uncertainties = uncertainties.clone();
         }
 
+        /** @return a copy of the averaged coefficients d0, d2, ... */
         @Override
         public double[] defects() {
             return defects.clone();
         }
 
+        /** @return a copy of their standard uncertainties */
         @Override
         public double[] uncertainties() {
             return uncertainties.clone();
         }
 
+        /** Equal when both arrays are equal element by element. */
         @Override
         public boolean equals(Object other) {
             return other instanceof DefectAverage a && Arrays.equals(defects, a.defects)
                     && Arrays.equals(uncertainties, a.uncertainties);
         }
 
+        /** @return a hash of both arrays */
         @Override
         public int hashCode() {
             return 31 * Arrays.hashCode(defects) + Arrays.hashCode(uncertainties);
         }
 
+        /** @return both arrays as text */
         @Override
         public String toString() {
             return "DefectAverage[defects=" + Arrays.toString(defects) + ", uncertainties="
