@@ -15,7 +15,16 @@ import org.ritzwerk.quantity.Unit;
  * becomes a wavelength (with the uncertainty of its centroid and of the solution, as
  * {@link CalibratedPeaks} puts them), and the line
  * identifier ({@link Identifier}) pairs all peaks with all lamp lines at once by an optimal
- * one-to-one assignment, within a tolerance of a few pixels. Peaks it calls ambiguous (two lines
+ * one-to-one assignment, within three standard uncertainties of each peak's wavelength but never
+ * closer than the tolerance (a few pixels): the uncertainty is the centroid's and the first
+ * solution's there, each at least a third of the tolerance, so where the first solution covers the
+ * peak the window is the tolerance and a residual is scored as a Gaussian of a third of it, and
+ * where the first solution is extrapolated (its lines all in one part of the detector) the window
+ * widens with the extrapolation's own uncertainty. (With a fixed window, a first solution from
+ * lines at 813-886 nm of a 708-911 nm neon-mercury exposure, refdata's sweep seed 206, missed the
+ * bright neon lines at 717 and 724 nm, 13 and 11 pixels from its extrapolation, which stated 10
+ * and 8 pixels there: the accepted solution covered 32 % of the detector; now 84 %.) Peaks it calls
+ * ambiguous (two lines
  * not separable) are left out. A paired peak that looks like an unresolved blend (a poor profile
  * fit, wider than its neighbours) carries, beside its centroid's statistical uncertainty, a bound
  * on how far the blend's centroid may lie from its brighter line ({@link #blendOffsetBound}). The
@@ -51,7 +60,8 @@ final class IdentifierRefinement {
      * @param peaks           every detected peak
      * @param lines           the lamp's lines
      * @param species         the species of each line, for the identifier
-     * @param tolerancePixels how far (pixels) a peak may lie from a line to pair, positive
+     * @param tolerancePixels how far (pixels) a peak may lie from a line to pair where the first solution is
+     *                        tight (wider where it is extrapolated: three of its standard uncertainties), positive
      * @return the refined pairing, sorted by pixel
      * @throws CalibrationException when fewer than {@link LampMatcher#MIN_MATCHES} pairs remain (three
      *         when the first solution puts fewer lamp lines than that on the detector)
@@ -88,6 +98,16 @@ final class IdentifierRefinement {
                 c++;
             }
         }
+        // Each peak's uncertainty at least a third of the tolerance: the 3-sigma window is then the
+        // tolerance wherever the first solution is tight, and wider where it is extrapolated.
+        // (Where no peak's uncertainty exceeds a third of the tolerance, the fixed window is the
+        // same and the identifier's faster path for it is taken.)
+        double floor = tolerancePixels * widest / 3;
+        boolean widens = false;
+        for (int q = 0; q < c; q++) {
+            widens |= nmSigma[q] > floor;
+            nmSigma[q] = Math.max(nmSigma[q], floor);
+        }
         PeakList peakList = PeakList.of(Arrays.copyOf(nm, c), Arrays.copyOf(nmSigma, c), Arrays.copyOf(flux, c),
                 Unit.NANOMETRE, lines.medium());
         LineCatalog.Builder catalog = LineCatalog.builder();
@@ -97,7 +117,8 @@ final class IdentifierRefinement {
             catalog.add(species[j], vacuum, lines.sigma(j) * 1e-9 * scale, lines.intensity(j), Integer.toString(j));
         }
         LineCatalog built = catalog.build();
-        Identification id = Identifier.of(Tolerance.absolute(tolerancePixels * widest * 1e-9)).identify(peakList, built);
+        Tolerance window = widens ? Tolerance.kSigma(3) : Tolerance.absolute(3 * floor * 1e-9);
+        Identification id = Identifier.of(window).identify(peakList, built);
         int[] peakIndex = new int[n];
         int[] lineIndex = new int[n];
         int m = 0;
