@@ -448,11 +448,11 @@ public final class RitzwerkJackson {
                     throw refused(p, type, field, "expected a JSON number, got " + describe(token));
                 }
                 throw refused(p, type, field, "expected a JSON number, got " + describe(token) + " "
-                        + p.getText());
+                        + p.getString());
             }
             double number = p.getDoubleValue();
             if (!Double.isFinite(number)) {
-                throw refused(p, type, field, "must be a finite number, got " + p.getText()
+                throw refused(p, type, field, "must be a finite number, got " + p.getString()
                         + (Double.isNaN(number) ? "" : ", which is too large for a double"));
             }
             return number;
@@ -463,7 +463,7 @@ public final class RitzwerkJackson {
                 if (token == JsonToken.START_OBJECT || token == JsonToken.START_ARRAY) {
                     throw refused(p, type, field, "expected a JSON string, got " + describe(token));
                 }
-                throw refused(p, type, field, "expected a JSON string, got " + describe(token) + " " + p.getText());
+                throw refused(p, type, field, "expected a JSON string, got " + describe(token) + " " + p.getString());
             }
             return p.getString();
         }

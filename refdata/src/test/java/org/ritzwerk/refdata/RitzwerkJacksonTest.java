@@ -72,6 +72,9 @@ class RitzwerkJacksonTest {
         // 656.28 nm is held as 656.28 / 1e9 m, the double below (Python: 656.28/1e9 = 6.562799999999999e-07).
         assertEquals("{\"value\":6.562799999999999E-7,\"unit\":\"m\",\"medium\":\"air\"}",
                 json.writeValueAsString(Wavelength.ofNanometres(656.28, Medium.air())));
+        // The README's example (section "JSON with Jackson").
+        assertEquals("{\"value\":6.56279E-7,\"uncertainty\":2.0E-12,\"unit\":\"m\",\"medium\":\"air\"}",
+                json.writeValueAsString(Wavelength.of(656.279, 0.002, Unit.NANOMETRE, Medium.air())));
         assertEquals("{\"value\":1523300.0,\"uncertainty\":2.5,\"unit\":\"m-1\"}",
                 json.writeValueAsString(Wavenumber.of(1523300, 2.5, Unit.PER_METRE)));
         assertEquals("{\"value\":4.5668E14,\"unit\":\"Hz\"}", json.writeValueAsString(Frequency.ofHertz(4.5668e14)));
