@@ -15,6 +15,15 @@ import org.junit.jupiter.api.Test;
 import org.quicktheories.core.Gen;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSetInfo;
+import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.Provenance;
+import org.ritzwerk.engine.pair.PairState;
+import org.ritzwerk.engine.rydberg.DecayChannel;
+import org.ritzwerk.engine.rydberg.Level;
+import org.ritzwerk.engine.rydberg.LevelOrigin;
 import org.ritzwerk.medium.AirModel;
 import org.ritzwerk.medium.Ciddor1996;
 import org.ritzwerk.medium.Medium;
@@ -23,6 +32,7 @@ import org.ritzwerk.quantity.Energy;
 import org.ritzwerk.quantity.Frequency;
 import org.ritzwerk.quantity.Quantity;
 import org.ritzwerk.quantity.SpectralQuantity;
+import org.ritzwerk.quantity.Target;
 import org.ritzwerk.quantity.Temperature;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.quantity.Wavelength;
@@ -219,6 +229,26 @@ class RitzwerkJacksonTest {
         Observation empty = new Observation(null, null, null, null, null, null, null, null, null, null, null, null,
                 null);
         assertEquals(empty, json.readValue(json.writeValueAsString(empty), Observation.class));
+    }
+
+    @Test
+    void theProjectsRecordsHoldingTheseTypesRoundTrip() {
+        // Records serialise by their components; with the module their Species, State, Unit and Medium
+        // components are text. The values are arbitrary test inputs, not physics.
+        List<Object> records = List.of(new Target(Unit.NANOMETRE, Medium.air(Ciddor1996.STANDARD_AIR)),
+                Target.of(Unit.PER_CENTIMETRE), new MeasuredLevel(State.of(5, 1, 3), 12_816.5, "test"),
+                new Level(State.of(60, 0, 1), 33_000.5, 57.1, LevelOrigin.MEASURED),
+                new PairState(State.of(60, 0, 1), 1, State.of(60, 1, 3), -1),
+                new DecayChannel(State.of(60, 1, 3), State.of(5, 0, 1), 1e15, 1e3),
+                new DataSetInfo("my-levels", DataKind.LEVELS, "test levels", "1",
+                        new Provenance(Provenance.Kind.FROM_MEMORY, "test"), List.of(Species.parse("Rb-87 I"))),
+                PhysicalConstants.PLANCK);
+        for (Object record : records) {
+            String text = json.writeValueAsString(record);
+            assertEquals(record, json.readValue(text, record.getClass()), text);
+        }
+        assertEquals("{\"unit\":\"nm\",\"medium\":\"air(ciddor1996:T=15C,p=101325Pa,RH=0%,CO2=450ppm)\"}",
+                json.writeValueAsString(records.get(0)));
     }
 
     // ---- Refusals: the message names the type and field, and the path ends at the field.
