@@ -68,7 +68,8 @@ class RitzwerkJacksonTest {
         assertThrows(JacksonException.class, () -> plain.readValue("{}", Wavelength.class));
     }
 
-    // ---- Fixed examples: the documented shape, character for character.
+    // ---- Fixed examples: the documented shape, character for character. The expected texts are the
+    // format RitzwerkJackson's Javadoc defines; the inputs are arbitrary, not physics.
 
     @Test
     void quantitiesAreWrittenInSiUnitsWithUncertaintyAndMedium() {
