@@ -26,6 +26,7 @@ import org.ritzwerk.quantity.Wavenumber;
 import tools.jackson.core.JsonGenerator;
 import tools.jackson.core.JsonParser;
 import tools.jackson.core.JsonToken;
+import tools.jackson.core.type.WritableTypeId;
 import tools.jackson.databind.DatabindException;
 import tools.jackson.databind.DeserializationContext;
 import tools.jackson.databind.JacksonModule;
@@ -34,6 +35,7 @@ import tools.jackson.databind.SerializationContext;
 import tools.jackson.databind.deser.std.StdDeserializer;
 import tools.jackson.databind.exc.InvalidFormatException;
 import tools.jackson.databind.exc.MismatchedInputException;
+import tools.jackson.databind.jsontype.TypeSerializer;
 import tools.jackson.databind.module.SimpleModule;
 import tools.jackson.databind.ser.std.StdSerializer;
 
@@ -82,6 +84,9 @@ import tools.jackson.databind.ser.std.StdSerializer;
  * whatever the type's factory refuses (a negative wavelength, a negative uncertainty). Writing
  * refuses an air model of a third party whose spec does not read back into an equal model (the
  * built-in {@link AirModels} parser knows only the built-in models).
+ *
+ * <p>Jackson's polymorphic typing (default typing, or {@code @JsonTypeInfo} on a user's field
+ * typed {@code Object}) writes its type id beside these shapes and reads them back.
  *
  * <p>Stateless; each call of {@link #module()} returns a new module. The serialisers and
  * deserialisers it registers are immutable and thread-safe.
@@ -306,16 +311,37 @@ public final class RitzwerkJackson {
 
         @Override
         public void serialize(Quantity quantity, JsonGenerator gen, SerializationContext ctxt) {
-            Unit unit = siUnit(quantity.kind());
-            String medium = null;
-            if (quantity instanceof Wavelength) {
-                try {
-                    medium = writableSpec(((Wavelength) quantity).medium());
-                } catch (IllegalArgumentException e) {
-                    throw DatabindException.from(gen, "Wavelength field \"medium\": " + e.getMessage(), e);
-                }
-            }
+            String medium = medium(quantity, gen);
             gen.writeStartObject(quantity);
+            writeFields(quantity, medium, gen);
+            gen.writeEndObject();
+        }
+
+        /** With a type id, for polymorphic typing (annotations on a user's field or default typing). */
+        @Override
+        public void serializeWithType(Quantity quantity, JsonGenerator gen, SerializationContext ctxt,
+                TypeSerializer typeSer) {
+            String medium = medium(quantity, gen);
+            WritableTypeId typeId = typeSer.writeTypePrefix(gen, ctxt, typeSer.typeId(quantity,
+                    JsonToken.START_OBJECT));
+            writeFields(quantity, medium, gen);
+            typeSer.writeTypeSuffix(gen, ctxt, typeId);
+        }
+
+        /** The medium's text for a wavelength (checked before anything is written), else null. */
+        private static String medium(Quantity quantity, JsonGenerator gen) {
+            if (!(quantity instanceof Wavelength)) {
+                return null;
+            }
+            try {
+                return writableSpec(((Wavelength) quantity).medium());
+            } catch (IllegalArgumentException e) {
+                throw DatabindException.from(gen, "Wavelength field \"medium\": " + e.getMessage(), e);
+            }
+        }
+
+        private static void writeFields(Quantity quantity, String medium, JsonGenerator gen) {
+            Unit unit = siUnit(quantity.kind());
             gen.writeNumberProperty(VALUE, quantity.valueIn(unit));
             if (quantity.hasUncertainty()) {
                 gen.writeNumberProperty(UNCERTAINTY, quantity.uncertaintyIn(unit).getAsDouble());
@@ -324,7 +350,6 @@ public final class RitzwerkJackson {
             if (medium != null) {
                 gen.writeStringProperty(MEDIUM, medium);
             }
-            gen.writeEndObject();
         }
     }
 
@@ -500,13 +525,24 @@ public final class RitzwerkJackson {
 
         @Override
         public void serialize(T value, JsonGenerator gen, SerializationContext ctxt) {
-            String written;
+            gen.writeString(text(value, gen));
+        }
+
+        /** With a type id, for polymorphic typing (annotations on a user's field or default typing). */
+        @Override
+        public void serializeWithType(T value, JsonGenerator gen, SerializationContext ctxt, TypeSerializer typeSer) {
+            String written = text(value, gen);
+            WritableTypeId typeId = typeSer.writeTypePrefix(gen, ctxt, typeSer.typeId(value, JsonToken.VALUE_STRING));
+            gen.writeString(written);
+            typeSer.writeTypeSuffix(gen, ctxt, typeId);
+        }
+
+        private String text(T value, JsonGenerator gen) {
             try {
-                written = text.apply(value);
+                return text.apply(value);
             } catch (IllegalArgumentException e) {
                 throw DatabindException.from(gen, type.getSimpleName() + ": " + e.getMessage(), e);
             }
-            gen.writeString(written);
         }
     }
 

@@ -40,6 +40,9 @@ import org.ritzwerk.quantity.Wavenumber;
 import tools.jackson.core.JacksonException;
 import tools.jackson.core.json.JsonReadFeature;
 import tools.jackson.databind.DatabindException;
+import tools.jackson.databind.DefaultTyping;
+import tools.jackson.databind.jsontype.BasicPolymorphicTypeValidator;
+import tools.jackson.databind.jsontype.PolymorphicTypeValidator;
 import tools.jackson.databind.json.JsonMapper;
 
 /**
@@ -250,6 +253,32 @@ class RitzwerkJacksonTest {
         }
         assertEquals("{\"unit\":\"nm\",\"medium\":\"air(ciddor1996:T=15C,p=101325Pa,RH=0%,CO2=450ppm)\"}",
                 json.writeValueAsString(records.get(0)));
+    }
+
+    /** A holder whose field is typed Object: Jackson's polymorphic typing writes a type id beside the value. */
+    public record Holder(Object held) {
+    }
+
+    @Test
+    void polymorphicTypingWritesATypeIdBesideTheShape() {
+        PolymorphicTypeValidator ritzwerkOnly = BasicPolymorphicTypeValidator.builder()
+                .allowIfSubType("org.ritzwerk.").build();
+        JsonMapper typed = JsonMapper.builder().addModule(RitzwerkJackson.module())
+                .activateDefaultTypingAsProperty(ritzwerkOnly, DefaultTyping.JAVA_LANG_OBJECT, "@type").build();
+        Wavelength line = Wavelength.of(6.5628e-7, 1e-13, Unit.METRE, Medium.air());
+        String text = typed.writeValueAsString(new Holder(line));
+        assertEquals("{\"held\":{\"@type\":\"org.ritzwerk.quantity.Wavelength\",\"value\":6.5628E-7,"
+                + "\"uncertainty\":1.0E-13,\"unit\":\"m\",\"medium\":\"air\"}}", text);
+        assertEquals(new Holder(line), typed.readValue(text, Holder.class));
+        // The type id after the fields: Jackson buffers the fields and hands them on.
+        assertEquals(new Holder(line), typed.readValue("{\"held\":{\"value\":6.5628E-7,\"uncertainty\":1.0E-13,"
+                + "\"unit\":\"m\",\"medium\":\"air\",\"@type\":\"org.ritzwerk.quantity.Wavelength\"}}",
+                Holder.class));
+        for (Object value : List.of(Species.parse("He II"), State.of(60, 40, 81), Medium.air(), Unit.ANGSTROM,
+                Temperature.ofKelvin(300), Ciddor1996.STANDARD_AIR)) {
+            String written = typed.writeValueAsString(new Holder(value));
+            assertEquals(new Holder(value), typed.readValue(written, Holder.class), written);
+        }
     }
 
     // ---- Refusals: the message names the type and field, and the path ends at the field.
