@@ -27,17 +27,22 @@ import tools.jackson.core.JsonGenerator;
 import tools.jackson.core.JsonParser;
 import tools.jackson.core.JsonToken;
 import tools.jackson.core.type.WritableTypeId;
+import tools.jackson.databind.BeanDescription;
 import tools.jackson.databind.DatabindException;
 import tools.jackson.databind.DeserializationContext;
 import tools.jackson.databind.JacksonModule;
 import tools.jackson.databind.KeyDeserializer;
+import tools.jackson.databind.SerializationConfig;
 import tools.jackson.databind.SerializationContext;
+import tools.jackson.databind.ValueSerializer;
 import tools.jackson.databind.deser.std.StdDeserializer;
 import tools.jackson.databind.exc.InvalidFormatException;
 import tools.jackson.databind.exc.MismatchedInputException;
 import tools.jackson.databind.jsontype.TypeSerializer;
 import tools.jackson.databind.module.SimpleModule;
+import tools.jackson.databind.ser.ValueSerializerModifier;
 import tools.jackson.databind.ser.std.StdSerializer;
+import tools.jackson.databind.ser.std.ToEmptyObjectSerializer;
 
 /**
  * A Jackson 3 module that writes and reads Ritzwerk's value types in a documented, stable JSON
@@ -84,6 +89,11 @@ import tools.jackson.databind.ser.std.StdSerializer;
  * whatever the type's factory refuses (a negative wavelength, a negative uncertainty). Writing
  * refuses an air model of a third party whose spec does not read back into an equal model (the
  * built-in {@link AirModels} parser knows only the built-in models).
+ *
+ * <p>A Ritzwerk class without a JSON shape (results such as {@code LineSet}, {@code Calibration},
+ * {@code PeakList}, whose accessors are not getters) is refused on writing with a
+ * {@link DatabindException} naming it, where Jackson alone would write {@code {}}; write those with
+ * their own file formats.
  *
  * <p>Jackson's polymorphic typing (default typing, or {@code @JsonTypeInfo} on a user's field
  * typed {@code Object}) writes its type id beside these shapes and reads them back.
@@ -151,6 +161,8 @@ public final class RitzwerkJackson {
         module.addDeserializer(AirModel.class, modelDeserializer(AirModel.class));
         module.addDeserializer(StandardAir.class, modelDeserializer(StandardAir.class));
         module.addDeserializer(Ciddor1996.class, modelDeserializer(Ciddor1996.class));
+
+        module.setSerializerModifier(new NoEmptyObjects());
 
         module.addSerializer(Unit.class, new TextSerializer<>(Unit.class, Unit::symbol));
         module.addDeserializer(Unit.class, new TextDeserializer<>(Unit.class, "a unit symbol such as 'nm'",
@@ -300,6 +312,50 @@ public final class RitzwerkJackson {
             e.prependPath(type, field);
         }
         return e;
+    }
+
+    /**
+     * Replaces the empty-object serialiser Jackson makes for a Ritzwerk class it finds no properties
+     * in (a result such as a line set or a calibration, whose accessors are not getters) by one that
+     * refuses, so such a value is never written as a silent {@code {}}.
+     */
+    private static final class NoEmptyObjects extends ValueSerializerModifier {
+        private static final long serialVersionUID = 1L;
+
+        @Override
+        public ValueSerializer<?> modifySerializer(SerializationConfig config, BeanDescription.Supplier beanDesc,
+                ValueSerializer<?> serializer) {
+            Class<?> type = beanDesc.getBeanClass();
+            if (serializer instanceof ToEmptyObjectSerializer && type.getName().startsWith("org.ritzwerk.")) {
+                return new NoShapeSerializer(type);
+            }
+            return serializer;
+        }
+    }
+
+    /** Refuses to write a Ritzwerk value that has no JSON shape. */
+    private static final class NoShapeSerializer extends StdSerializer<Object> {
+
+        NoShapeSerializer(Class<?> type) {
+            super(type);
+        }
+
+        @Override
+        public void serialize(Object value, JsonGenerator gen, SerializationContext ctxt) {
+            throw refusal(value, gen);
+        }
+
+        @Override
+        public void serializeWithType(Object value, JsonGenerator gen, SerializationContext ctxt,
+                TypeSerializer typeSer) {
+            throw refusal(value, gen);
+        }
+
+        private static DatabindException refusal(Object value, JsonGenerator gen) {
+            return DatabindException.from(gen, value.getClass().getName() + " has no JSON shape (Jackson would "
+                    + "write {}): write it with its own file format (the *Files classes of org.ritzwerk.refdata), or "
+                    + "put the values you need (quantities, species, states) in a record of your own");
+        }
     }
 
     /** Writes a quantity as {"value", "uncertainty" (when stated), "unit", "medium" (wavelengths)}. */

@@ -24,6 +24,7 @@ import org.ritzwerk.engine.pair.PairState;
 import org.ritzwerk.engine.rydberg.DecayChannel;
 import org.ritzwerk.engine.rydberg.Level;
 import org.ritzwerk.engine.rydberg.LevelOrigin;
+import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.medium.AirModel;
 import org.ritzwerk.medium.Ciddor1996;
 import org.ritzwerk.medium.Medium;
@@ -69,6 +70,18 @@ class RitzwerkJacksonTest {
         JsonMapper plain = JsonMapper.builder().build();
         assertEquals("{}", plain.writeValueAsString(Wavelength.ofMetres(6.5628e-7, Medium.air())));
         assertThrows(JacksonException.class, () -> plain.readValue("{}", Wavelength.class));
+    }
+
+    @Test
+    void aRitzwerkResultWithoutAShapeIsRefusedInsteadOfWrittenAsAnEmptyObject() {
+        PixelGrid grid = PixelGrid.linear(400, 700, 10);
+        assertEquals("{}", JsonMapper.builder().build().writeValueAsString(grid));
+        DatabindException e = assertThrows(DatabindException.class, () -> json.writeValueAsString(grid));
+        assertTrue(e.getOriginalMessage().startsWith("org.ritzwerk.engine.synth.PixelGrid has no JSON shape (Jackson"
+                + " would write {}): write it with its own file format"), e.getOriginalMessage());
+        assertThrows(DatabindException.class, () -> json.writeValueAsString(new Holder(grid)));
+        // A user's own empty class keeps Jackson's behaviour.
+        assertEquals("{}", json.writeValueAsString(new Object()));
     }
 
     // ---- Fixed examples: the documented shape, character for character. The expected texts are the
