@@ -106,10 +106,10 @@ public final class RitzwerkJackson {
     /** The name the module registers under, {@value}. */
     public static final String MODULE_NAME = "ritzwerk";
 
-    static final String VALUE = "value";
-    static final String UNCERTAINTY = "uncertainty";
-    static final String UNIT = "unit";
-    static final String MEDIUM = "medium";
+    private static final String VALUE = "value";
+    private static final String UNCERTAINTY = "uncertainty";
+    private static final String UNIT = "unit";
+    private static final String MEDIUM = "medium";
     private static final List<String> FIELDS = List.of(VALUE, UNCERTAINTY, UNIT, MEDIUM);
 
     private RitzwerkJackson() {
@@ -162,12 +162,12 @@ public final class RitzwerkJackson {
         module.addDeserializer(StandardAir.class, modelDeserializer(StandardAir.class));
         module.addDeserializer(Ciddor1996.class, modelDeserializer(Ciddor1996.class));
 
-        module.setSerializerModifier(new NoEmptyObjects());
-
         module.addSerializer(Unit.class, new TextSerializer<>(Unit.class, Unit::symbol));
         module.addDeserializer(Unit.class, new TextDeserializer<>(Unit.class, "a unit symbol such as 'nm'",
                 symbol -> Unit.fromSymbol(symbol).orElseThrow(() -> new IllegalArgumentException(
                         unknownUnit(symbol)))));
+
+        module.setSerializerModifier(new NoEmptyObjects());
         return module;
     }
 
