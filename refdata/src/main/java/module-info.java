@@ -6,7 +6,8 @@
 module org.ritzwerk.refdata {
     requires transitive org.ritzwerk.api;
     requires transitive org.ritzwerk.engine;
-    requires tools.jackson.databind;
+    // Transitive: RitzwerkJackson.module() returns a Jackson type.
+    requires transitive tools.jackson.databind;
     requires tools.jackson.dataformat.csv;
 
     exports org.ritzwerk.refdata;

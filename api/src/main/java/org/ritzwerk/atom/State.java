@@ -15,7 +15,8 @@ import java.util.regex.Pattern;
 public record State(int n, int l, int twoJ) {
 
     private static final String LETTERS = "spdfghiklmnoqrtuv";
-    private static final Pattern TEXT = Pattern.compile("(\\d{1,9})([a-z])(\\d{1,3})/2");
+    /** n, then the letter of l or {@code (l=<l>)} (as {@link #label()} writes l beyond the letters), then 2j. */
+    private static final Pattern TEXT = Pattern.compile("(\\d{1,10})(?:([a-z])|\\(l=(\\d{1,10})\\))(\\d{1,10})/2");
     private static final Pattern NO_J = Pattern.compile("\\d{1,9}[spdfghiklmnoqrtuv]");
 
     /**
@@ -49,7 +50,8 @@ public record State(int n, int l, int twoJ) {
     }
 
     /**
-     * @param text the form {@link #label()} writes, e.g. {@code 5s1/2}, {@code 43d5/2}, {@code 60p3/2}
+     * @param text the form {@link #label()} writes, e.g. {@code 5s1/2}, {@code 43d5/2}, {@code 60p3/2},
+     *             and for l beyond the letters {@code 60(l=40)81/2}; every label reads back
      * @return the state
      * @throws StateParseException ({@link StateParseException#MALFORMED}) when the text has another
      *         form, ({@link StateParseException#IMPOSSIBLE}) for impossible quantum numbers; the
@@ -58,18 +60,29 @@ public record State(int n, int l, int twoJ) {
     public static State parse(String text) {
         String input = java.util.Objects.requireNonNull(text, "text").strip();
         Matcher m = TEXT.matcher(input.toLowerCase(Locale.ROOT));
-        if (!m.matches() || LETTERS.indexOf(m.group(2).charAt(0)) < 0) {
+        if (!m.matches() || (m.group(2) != null && LETTERS.indexOf(m.group(2).charAt(0)) < 0)) {
             String hint = NO_J.matcher(input.toLowerCase(Locale.ROOT)).matches() ? "j is missing (write e.g. "
                     + input + (input.toLowerCase(Locale.ROOT).endsWith("s") ? "1/2" : "3/2") + "); " : "";
             throw new StateParseException(StateParseException.MALFORMED, input, hint
                     + "expected n, the letter of l and j, e.g. 5s1/2, 43d5/2, 60p3/2");
         }
+        int n = quantumNumber(input, "n", m.group(1));
+        int l = m.group(2) != null ? LETTERS.indexOf(m.group(2).charAt(0)) : quantumNumber(input, "l", m.group(3));
+        int twoJ = quantumNumber(input, "2j", m.group(4));
         try {
-            return new State(Integer.parseInt(m.group(1)), LETTERS.indexOf(m.group(2).charAt(0)),
-                    Integer.parseInt(m.group(3)));
+            return new State(n, l, twoJ);
         } catch (IllegalArgumentException e) {
             throw new StateParseException(StateParseException.IMPOSSIBLE, input, e.getMessage());
         }
+    }
+
+    private static int quantumNumber(String input, String name, String digits) {
+        long value = Long.parseLong(digits);
+        if (value > Integer.MAX_VALUE) {
+            throw new StateParseException(StateParseException.IMPOSSIBLE, input,
+                    name + " = " + digits + " is larger than " + Integer.MAX_VALUE);
+        }
+        return (int) value;
     }
 
     /** @return j as a number */

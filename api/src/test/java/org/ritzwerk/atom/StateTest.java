@@ -47,4 +47,27 @@ class StateTest {
         assertEquals(0.5, s.j(), 0.0);
         assertEquals("60(l=40)81/2", State.of(60, 40, 81).label());
     }
+
+    @Test
+    void labelsBeyondTheLettersReadBack() {
+        // l >= 17 has no letter; label() writes (l=<l>), which parse must read (a JSON round trip needs it).
+        qt().withFixedSeed(SEED).forAll(integers().between(18, 100_000), integers().between(17, 99_999),
+                integers().between(0, 1)).checkAssert((n, lSeed, j) -> {
+                    int l = 17 + lSeed % (n - 17);
+                    State s = State.of(n, l, 2 * l - 1 + 2 * j);
+                    assertEquals(s, State.parse(s.label()));
+                });
+        State widest = State.of(Integer.MAX_VALUE, 999_999_999, 1_999_999_999);
+        assertEquals("2147483647(l=999999999)1999999999/2", widest.label());
+        assertEquals(widest, State.parse(widest.label()));
+        assertEquals(State.of(5, 2, 5), State.parse("5(l=2)5/2"));
+        StateParseException tooLarge = assertThrows(StateParseException.class, () -> State.parse("2147483648s1/2"));
+        assertEquals(StateParseException.IMPOSSIBLE, tooLarge.code());
+        assertEquals("cannot read state \"2147483648s1/2\": n = 2147483648 is larger than 2147483647",
+                tooLarge.getMessage());
+        assertEquals(StateParseException.IMPOSSIBLE,
+                assertThrows(StateParseException.class, () -> State.parse("60(l=60)121/2")).code());
+        assertEquals(StateParseException.MALFORMED,
+                assertThrows(StateParseException.class, () -> State.parse("60(l=)1/2")).code());
+    }
 }
