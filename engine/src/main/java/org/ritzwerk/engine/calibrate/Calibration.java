@@ -26,6 +26,8 @@ public final class Calibration {
     /** {low end's check, its pixel, high end's check, its pixel}; see {@link #endConfirmationPixels}. */
     private final double[] endConfirmation;
     private final double inferredSaturation;
+    /** Notes on end groups left out as undecided ({@link EndGroups}). */
+    private final List<String> leftOut;
 
     /**
      * @return the saturation level taken from the exposure itself when none was given (its highest
@@ -37,8 +39,9 @@ public final class Calibration {
     }
 
     Calibration(CalibrationProblem problem, Calibrator settings, Peaks peaks, LampMatch firstMatch, LampMatch match,
-            LampMatch saturatedPairs, DispersionSolution solution, double inferredSaturation) {
+            LampMatch saturatedPairs, DispersionSolution solution, double inferredSaturation, List<String> leftOut) {
         this.inferredSaturation = inferredSaturation;
+        this.leftOut = List.copyOf(leftOut);
         this.saturatedPairs = saturatedPairs;
         this.problem = problem;
         this.settings = settings;
@@ -106,6 +109,7 @@ public final class Calibration {
                     + ": the exposure looks clipped there, so that is taken as the saturation level (peaks reaching"
                     + " it are centred from their wings; a saturation level given overrides it)");
         }
+        notes.addAll(leftOut);
         for (boolean high : new boolean[] {false, true}) {
             if (restsOnItsEndLine(high)) {
                 double check = endConfirmationPixels(high);

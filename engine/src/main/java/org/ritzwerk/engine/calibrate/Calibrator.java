@@ -1,5 +1,8 @@
 package org.ritzwerk.engine.calibrate;
 
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
 import org.apache.commons.numbers.gamma.RegularizedGamma;
@@ -349,6 +352,24 @@ public final class Calibrator {
         requirePairsForDegree(fitted);
         DispersionSolution solution = fitted.fit(fit);
         checkPlausible(problem, solution);
+        // An end group that pairs as well with other lamp lines is left out, with a note.
+        List<String> undecided = new ArrayList<>();
+        for (boolean high : new boolean[] {false, true}) {
+            EndGroups.Undecided u = EndGroups.find(fitted, solution, lamp.lines(), peaks, tolerance, high);
+            if (u == null) {
+                continue;
+            }
+            undecided.add(EndGroups.note(u, fitted, lamp.lines(), lamp::label));
+            boolean[] keep = new boolean[fitted.size()];
+            Arrays.fill(keep, true);
+            for (int i : u.pairs()) {
+                keep[i] = false;
+            }
+            fitted = fitted.subset(keep);
+            requirePairsForDegree(fitted);
+            solution = fitted.fit(fit);
+            checkPlausible(problem, solution);
+        }
         // Pairs whose peaks look like unresolved blends carry the note "blend" into the saved record.
         String[] notes = new String[fitted.size()];
         boolean any = false;
@@ -363,7 +384,7 @@ public final class Calibrator {
             solution = solution.withPairFlags(notes);
         }
         Calibration calibration = new Calibration(problem, this, peaks, first, fitted, refined.subset(saturatedOnly),
-                solution, inferredSaturation);
+                solution, inferredSaturation, undecided);
         checkEndsChecked(calibration);
         checkPrecision(calibration);
         return calibration;
