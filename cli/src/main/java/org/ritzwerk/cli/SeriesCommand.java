@@ -368,8 +368,8 @@ final class SeriesCommand implements Callable<Integer> {
                     continue;
                 }
                 SeriesFit.Member m = p.member().get();
-                predicted.add("prediction", name, p.n(), m.energyPerCm(), p.uncertaintyPerCm(1),
-                        p.uncertaintyPerCm(scale), p.truncationPerCm(), m.quantumDefect(), mean, u,
+                predicted.add("prediction", name, p.n(), m.energyPerCm(), m.uncertaintyPerCm(),
+                        m.uncertaintyPerCm(scale), m.truncationPerCm(), m.quantumDefect(), mean, u,
                         mean == null ? "averaged withheld (see note)"
                                 : p.note().isPresent() ? "below the measured members" : null);
             }
