@@ -132,7 +132,8 @@ class LevelsAndLinesCommandTest {
         CliTest.Run neon = CliTest.run("lines", "--species", "Ne I", "--from", "400 nm", "--to", "700 nm");
         assertEquals(2, neon.code());
         assertEquals("ritzwerk lines: Ne I: levels and lines cover one-electron ions (H I, D I, He II, C VI, ...), "
-                + "the neutral alkali atoms [Li-6 I, Li-7 I, Na-23 I, K-39 I, K-40 I, K-41 I, Rb-85 I, Rb-87 I, Cs-133 I]"
+                + "the neutral alkali atoms [Li-6 I, Li-7 I, Na-23 I, K-39 I, K-40 I, K-41 I, Rb-85 I, Rb-87 I, "
+                + "Cs-133 I]"
                 + " and the species with a level list [He I, Sr-88 I]; another species needs a level list of your own "
                 + "(ritzwerk-levels format) with --data",
                 neon.err().strip());

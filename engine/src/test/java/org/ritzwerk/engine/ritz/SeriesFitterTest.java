@@ -274,7 +274,8 @@ class SeriesFitterTest {
             double slope = (fitted(moved, sigma, LIMIT).prediction(0, 6).memberOrThrow().energyPerCm() - base) / 1e-4;
             variance += slope * slope * sigma[n] * sigma[n];
         }
-        double slope = (fitted(energy, sigma, LIMIT + 1e-4).prediction(0, 6).memberOrThrow().energyPerCm() - base) / 1e-4;
+        double slope = (fitted(energy, sigma, LIMIT + 1e-4).prediction(0, 6).memberOrThrow().energyPerCm() - base)
+                / 1e-4;
         variance += slope * slope * 1e-6;
         assertEquals(Math.sqrt(variance), u, 1e-3 * u);
     }
@@ -452,7 +453,8 @@ class SeriesFitterTest {
             double e = one.member().orElseThrow().energyPerCm();
             double u = one.memberOrThrow().uncertaintyPerCm();
             assertTrue(Math.abs(e - known[k]) <= u, one + ": " + e + " +- " + u + " vs " + known[k]);
-            assertTrue(one.memberOrThrow().truncationPerCm() > one.memberOrThrow().fitUncertaintyPerCm(), one.toString());
+            SeriesFit.Member m = one.memberOrThrow();
+            assertTrue(m.truncationPerCm() > m.fitUncertaintyPerCm(), one.toString());
             assertTrue(one.note().orElseThrow().contains("for the truncation"), one.toString());
         }
         // the added uncertainty stays in proportion: 59 cm-1 at 6d5/2 by hand (|d2| / (6 - d0)^2 = 0.0274 times
