@@ -394,6 +394,11 @@ final class RydbergCommand implements Runnable {
                     others.add(p.label());
                 }
             }
+            int count = others.size();
+            if (count > 6) {        // off axis every M enters: name a few
+                others = new ArrayList<>(others.subList(0, 5));
+                others.add("and " + (count - 5) + " more");
+            }
             String blockade = "";
             if (rabi != null && low > 0) {
                 double omega = 2 * Math.PI * rabi * 1e6;
@@ -402,8 +407,8 @@ final class RydbergCommand implements Runnable {
                         PairInteractions.blockadeRadiusMetres(high * 1e-27, omega) * 1e6);
             }
             PrintWriter err = spec.commandLine().getErr();
-            err.println("note: " + manifold.pair().label() + " is degenerate with " + others.size() + " other pair "
-                    + "state" + (others.size() == 1 ? "" : "s") + (angle == 0 ? " of the same M" : "") + " ("
+            err.println("note: " + manifold.pair().label() + " is degenerate with " + count + " other pair "
+                    + "state" + (count == 1 ? "" : "s") + (angle == 0 ? " of the same M" : "") + " ("
                     + String.join(", ", others) + ") and mixes with them at second order: the C6 printed is its "
                     + "diagonal element (the share-weighted mean), not one potential's. It splits into potentials "
                     + "with C6 = " + String.join(", ", parts) + " GHz um^6 (eigenvalues of the C6 matrix of the "

@@ -47,11 +47,13 @@ public record DispersionManifold(PairState pair, List<PairState> states, double[
         }
     }
 
+    /** @return the eigenvalues of the C6 matrix, ascending, E_h a0^6 (a copy) */
     @Override
     public double[] c6Au() {
         return c6Au.clone();
     }
 
+    /** @return the pair state's share in each eigenvector, in the order of {@link #c6Au()} (a copy) */
     @Override
     public double[] shares() {
         return shares.clone();

@@ -148,6 +148,10 @@ public final class PairInteractions {
         return c3Au * AtomicUnits.HARTREE_HZ * Math.pow(AtomicUnits.BOHR_METRES, 3);
     }
 
+    /** One atom's state with its projection (a key for an intermediate state's atom). */
+    private record Single(State state, int twoM) {
+    }
+
     /** One dipole-coupled state with its projection: the element {@code <k m'|d_q|a m>} and its energy. */
     private record Channel(State state, int twoM, int q, double dipole, double energyHartree) {
     }
@@ -284,43 +288,58 @@ public final class PairInteractions {
         }
         int size = states.size();
         double e0 = AtomicUnits.hartreeFromPerCm(atom.energyPerCm(a) + atom.energyPerCm(b));
+        // The intermediate states |k1 m1'; k2 m2'> grouped by the first atom's |k1 m1'>, one group at a time,
+        // so that the amplitudes <k|R^3 V|A> held at once stay few (one group's second-atom states).
         Map<String, List<Channel>> cache = new HashMap<>();
-        Map<PairState, double[]> amplitudes = new LinkedHashMap<>();
-        Map<PairState, Double> defects = new HashMap<>();
+        List<List<Channel>> seconds = new ArrayList<>();
+        Map<Single, List<int[]>> byFirst = new LinkedHashMap<>();   // |k1 m1'> -> {manifold index, channel index}
+        List<List<Channel>> firsts = new ArrayList<>();
         for (int i = 0; i < size; i++) {
             PairState s = states.get(i);
             List<Channel> first = cache.computeIfAbsent(s.first().label() + "|" + s.twoM1(),
                     key -> channels(s.first(), s.twoM1()));
-            List<Channel> second = cache.computeIfAbsent(s.second().label() + "|" + s.twoM2(),
-                    key -> channels(s.second(), s.twoM2()));
-            for (Channel c1 : first) {
-                for (Channel c2 : second) {
+            firsts.add(first);
+            seconds.add(cache.computeIfAbsent(s.second().label() + "|" + s.twoM2(),
+                    key -> channels(s.second(), s.twoM2())));
+            for (int c = 0; c < first.size(); c++) {
+                byFirst.computeIfAbsent(new Single(first.get(c).state(), first.get(c).twoM()),
+                        key -> new ArrayList<>()).add(new int[] {i, c});
+            }
+        }
+        double[][] c6 = new double[size][size];
+        for (List<int[]> group : byFirst.values()) {
+            Map<Single, double[]> amplitudes = new HashMap<>();
+            Map<Single, Double> defects = new HashMap<>();
+            for (int[] member : group) {
+                int i = member[0];
+                Channel c1 = firsts.get(i).get(member[1]);
+                for (Channel c2 : seconds.get(i)) {
                     double v = weight(c1.q(), c2.q()) * c1.dipole() * c2.dipole();
                     if (v == 0) {
                         continue;
                     }
-                    PairState k = new PairState(c1.state(), c1.twoM(), c2.state(), c2.twoM());
                     double defect = c1.energyHartree() + c2.energyHartree() - e0;
                     if (Math.abs(defect) < 1e-14) {
-                        throw new StarkException(StarkException.DEGENERATE, s.label() + " is in exact Foerster "
-                                + "resonance with " + k.label() + " in this model; second-order perturbation theory "
-                                + "does not hold there");
+                        throw new StarkException(StarkException.DEGENERATE, states.get(i).label() + " is in exact "
+                                + "Foerster resonance with " + new PairState(c1.state(), c1.twoM(), c2.state(),
+                                c2.twoM()).label() + " in this model; second-order perturbation theory does not "
+                                + "hold there");
                     }
-                    amplitudes.computeIfAbsent(k, key -> new double[size])[i] += v;
-                    defects.put(k, defect);
+                    Single k2 = new Single(c2.state(), c2.twoM());
+                    amplitudes.computeIfAbsent(k2, key -> new double[size])[i] += v;
+                    defects.put(k2, defect);
                 }
             }
-        }
-        double[][] c6 = new double[size][size];
-        for (Map.Entry<PairState, double[]> e : amplitudes.entrySet()) {
-            double[] v = e.getValue();
-            double inverse = 1 / defects.get(e.getKey());
-            for (int i = 0; i < size; i++) {
-                if (v[i] == 0) {
-                    continue;
-                }
-                for (int j = 0; j < size; j++) {
-                    c6[i][j] -= v[i] * v[j] * inverse;
+            for (Map.Entry<Single, double[]> e : amplitudes.entrySet()) {
+                double[] v = e.getValue();
+                double inverse = 1 / defects.get(e.getKey());
+                for (int i = 0; i < size; i++) {
+                    if (v[i] == 0) {
+                        continue;
+                    }
+                    for (int j = 0; j < size; j++) {
+                        c6[i][j] -= v[i] * v[j] * inverse;
+                    }
                 }
             }
         }
