@@ -73,9 +73,16 @@ final class Ions {
             } else if (parsed.charge() == 0 && data.alkaliSpecies().stream().anyMatch(s -> s.z() == parsed.z())) {
                 alkalis.add(data.alkaliAtom(parsed));
             } else {
+                List<Species> listed = data.levelSpecies();
+                List<String> sameElement = listed.stream().filter(s -> s.z() == parsed.z()
+                        && s.charge() == parsed.charge()).map(Species::notation).toList();
                 throw new OptionException(parsed.notation() + ": levels and lines cover one-electron ions "
-                        + "(H I, D I, He II, C VI, ...) and the neutral alkali atoms "
-                        + data.alkaliSpecies().stream().map(Species::notation).toList());
+                        + "(H I, D I, He II, C VI, ...), the neutral alkali atoms "
+                        + data.alkaliSpecies().stream().map(Species::notation).toList() + " and the species with "
+                        + "a level list " + listed.stream().map(Species::notation).toList()
+                        + (sameElement.isEmpty() ? "" : " (" + String.join(", ", sameElement) + " is listed, not "
+                                + parsed.notation() + ")")
+                        + "; another species needs a level list of your own (ritzwerk-levels format) with --data");
             }
         }
         return new Atoms(oneElectron.isEmpty() ? List.of() : of(data, oneElectron, tierId), alkalis);

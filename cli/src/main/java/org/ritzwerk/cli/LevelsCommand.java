@@ -58,8 +58,9 @@ final class LevelsCommand implements Callable<Integer> {
     Integer nMax;
 
     @Option(names = "--lifetimes",
-            description = "Add each level's radiative lifetime from E1 decays alone: null for 1s; 2s decays mainly "
-                    + "by two-photon emission (0.12 s in H), which is not included.")
+            description = "Add each level's radiative lifetime from its E1 decays: null for 1s; for 2s1/2 of "
+                    + "one-electron ions, which has no E1 decay, its two-photon and magnetic-dipole decays to 1s "
+                    + "(0.1216 s in H); other M1, E2 and two-photon decays are left out.")
     boolean lifetimes;
 
     @Option(names = "--l-max", paramLabel = "L", defaultValue = "3",
@@ -68,7 +69,8 @@ final class LevelsCommand implements Callable<Integer> {
 
     @Option(names = "--temperature", paramLabel = "K",
             description = "Alkali atoms with --lifetimes: also the effective lifetime with black-body radiation at "
-                    + "this temperature (bound states only; photoionisation left out).")
+                    + "this temperature, 0 (no black-body radiation: the spontaneous lifetime) to below 1e5 K "
+                    + "(bound states only; photoionisation left out).")
     Double temperature;
 
     @Option(names = "--hyperfine",
@@ -110,8 +112,8 @@ final class LevelsCommand implements Callable<Integer> {
             }
         }
         if (temperature != null) {
-            OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e5),
-                    "a temperature above 0 and below 1e5 K");
+            OptionRules.range("--temperature", temperature, 0, true, Math.nextDown(1e5),
+                    "a temperature from 0 (no black-body radiation) to below 1e5 K");
         }
         if (lMax < 0 || lMax > 50) {
             throw new OptionException("--l-max must be 0 to 50, got " + lMax);

@@ -61,11 +61,14 @@ final class LinesCommand implements Callable<Integer> {
     String transition;
 
     @Option(names = "--ladder", paramLabel = "S1,S2,S3",
-            description = "Alkali atoms: the two laser wavelengths of a ladder, e.g. \"5s1/2,5p3/2,60s1/2\".")
+            description = "Alkali atoms: the two laser wavelengths of a ladder, e.g. \"5s1/2,5p3/2,60s1/2\", between "
+                    + "fine-structure centroids (no hyperfine structure: --hyperfine gives the D-line components' "
+                    + "offsets from the centroid).")
     String ladder;
 
     @Option(names = "--temperature", paramLabel = "K", defaultValue = "300",
-            description = "With --transition: the black-body temperature of the effective lifetimes (default: ${DEFAULT-VALUE}).")
+            description = "With --transition: the black-body temperature of the effective lifetimes, 0 (none) to "
+                    + "below 1e5 K (default: ${DEFAULT-VALUE}).")
     double temperature;
 
     @Option(names = "--l-max", paramLabel = "L", defaultValue = "3",
@@ -262,8 +265,8 @@ final class LinesCommand implements Callable<Integer> {
             throw new OptionException((transition != null ? "--transition" : "--ladder")
                     + " needs exactly one alkali atom in --species, e.g. \"Rb-87 I\"");
         }
-        OptionRules.range("--temperature", temperature, 0, false, Math.nextDown(1e5),
-                "a temperature above 0 and below 1e5 K");
+        OptionRules.range("--temperature", temperature, 0, true, Math.nextDown(1e5),
+                "a temperature from 0 (no black-body radiation) to below 1e5 K");
         AlkaliAtom atom = atoms.alkalis().get(0);
         if (transition != null) {
             State[] pair = AlkaliTables.pair(transition);
@@ -278,6 +281,12 @@ final class LinesCommand implements Callable<Integer> {
             State[] states = AlkaliTables.ladder(ladder);
             AlkaliTables.checkRange("--ladder", atom, states);
             AlkaliTables.ladder(atom, states, spec.commandLine().getOut(), format);
+            spec.commandLine().getErr().println("note: --ladder: the steps join fine-structure centroids; hyperfine "
+                    + "structure is left out, and a laser locked to a hyperfine component is MHz to GHz away from "
+                    + "them (ritzwerk lines --species \"" + atom.species().notation() + "\" --hyperfine lists the "
+                    + "D-line components' offsets from the centroid; levels --hyperfine --state STATE a Rydberg "
+                    + "level's F levels)");
+            spec.commandLine().getErr().flush();
         }
         return 0;
     }

@@ -1,12 +1,15 @@
 package org.ritzwerk.cli;
 
 import java.io.IOException;
+import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.pair.DispersionCoefficient;
+import org.ritzwerk.engine.pair.DispersionManifold;
 import org.ritzwerk.engine.pair.PairInteractions;
 import org.ritzwerk.engine.pair.PairState;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
@@ -278,7 +281,11 @@ final class RydbergCommand implements Runnable {
             description = "The interaction of two atoms: C6 of the pair |state, m_j; state, m_j> by second-order "
                     + "perturbation theory (dE = C6 / R^6, positive = repulsive) with its strongest channel and "
                     + "Foerster defect, and the blockade radius for --rabi; or, with --partner, the C3 coupling of "
-                    + "|state, partner> to |partner, state> (dE = C3 / R^3).")
+                    + "|state, partner> to |partner, state> (dE = C3 / R^3). Where the pair state shares its "
+                    + "energy and M with other pair states of the two atoms (e.g. two nD5/2 with m = 1/2), C6 is "
+                    + "the diagonal element of that degenerate manifold's C6 matrix: a note then gives the "
+                    + "matrix's eigenvalues, the C6 of the potentials the pair state splits into (see "
+                    + "rydberg pair-potential).")
     static final class Pair implements Callable<Integer> {
         @Spec
         CommandSpec spec;
@@ -357,10 +364,56 @@ final class RydbergCommand implements Runnable {
                     Table.Column.number("blockade_radius_um", "R_b um", "%.5g")), spec.commandLine().getOut(),
                     common.format);
             Double radius = rabi == null ? null : c6.blockadeRadiusMetres(2 * Math.PI * rabi * 1e6) * 1e6;
+            noteDegenerate(pairs.c6Manifold(c6.pair()));
             table.add(c6.pair().label(), angle, c6.c6Au(), c6.c6GHzUm6(), c6.strongest().label(),
                     c6.strongestDefectHz() / 1e6, radius);
             table.finish();
             return 0;
+        }
+
+        /** A note when the pair state is not an eigenvector of its degenerate manifold's C6 matrix. */
+        private void noteDegenerate(DispersionManifold manifold) {
+            if (manifold.isEigenstate()) {
+                return;
+            }
+            double[] c6 = manifold.c6GHzUm6();
+            double[] shares = manifold.shares();
+            List<String> parts = new ArrayList<>();
+            double low = Double.POSITIVE_INFINITY;
+            double high = 0;
+            for (int i = 0; i < c6.length; i++) {
+                if (shares[i] >= 1e-3) {
+                    parts.add(String.format(Locale.ROOT, "%.6g (share %.4f)", c6[i], shares[i]));
+                    low = Math.min(low, Math.abs(c6[i]));
+                    high = Math.max(high, Math.abs(c6[i]));
+                }
+            }
+            List<String> others = new ArrayList<>();
+            for (PairState p : manifold.states()) {
+                if (!p.equals(manifold.pair())) {
+                    others.add(p.label());
+                }
+            }
+            int count = others.size();
+            if (count > 6) {        // off axis every M enters: name a few
+                others = new ArrayList<>(others.subList(0, 5));
+                others.add("and " + (count - 5) + " more");
+            }
+            String blockade = "";
+            if (rabi != null && low > 0) {
+                double omega = 2 * Math.PI * rabi * 1e6;
+                blockade = String.format(Locale.ROOT, "; the blockade radius for those lies from %.5g to %.5g um",
+                        PairInteractions.blockadeRadiusMetres(low * 1e-27, omega) * 1e6,
+                        PairInteractions.blockadeRadiusMetres(high * 1e-27, omega) * 1e6);
+            }
+            PrintWriter err = spec.commandLine().getErr();
+            err.println("note: " + manifold.pair().label() + " is degenerate with " + count + " other pair "
+                    + "state" + (count == 1 ? "" : "s") + (angle == 0 ? " of the same M" : "") + " ("
+                    + String.join(", ", others) + ") and mixes with them at second order: the C6 printed is its "
+                    + "diagonal element (the share-weighted mean), not one potential's. It splits into potentials "
+                    + "with C6 = " + String.join(", ", parts) + " GHz um^6 (eigenvalues of the C6 matrix of the "
+                    + "manifold, PairInteractions.c6Manifold)" + blockade + "; see rydberg pair-potential");
+            err.flush();
         }
     }
 

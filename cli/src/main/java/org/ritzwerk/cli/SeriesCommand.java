@@ -11,6 +11,7 @@ import org.ritzwerk.engine.ritz.RydbergSeries;
 import org.ritzwerk.engine.ritz.SeriesFit;
 import org.ritzwerk.engine.ritz.SeriesFitter;
 import org.ritzwerk.refdata.OutputFiles;
+import org.ritzwerk.refdata.ReferenceDataException;
 import org.ritzwerk.refdata.SeriesFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -139,7 +140,18 @@ final class SeriesCommand implements Callable<Integer> {
                         + String.join(", ", series.stream().map(RydbergSeries::name).toList()));
             }
         }
-        double rydberg = SeriesFiles.rydbergPerCm(data.context(), contents.species());
+        double rydberg;
+        try {
+            rydberg = SeriesFiles.rydbergPerCm(data.context(), contents.species());
+        } catch (ReferenceDataException e) {
+            if (!ReferenceDataException.UNKNOWN_ISOTOPE.equals(e.code())) {
+                throw e;
+            }
+            throw new ReferenceDataException(e.code(), file + ": '# species: " + contents.species().notation()
+                    + "': " + e.getMessage() + ". R_M needs the isotope's mass: name a listed isotope, or give an "
+                    + "isotope table of your own with --data (the columns of 'ritzwerk data show nuclear-isotopes "
+                    + "--format csv')");
+        }
         SeriesFitter fitter = terms.isEmpty() ? SeriesFitter.defaults().withMaxTerms(maxTerms)
                 : SeriesFitter.defaults().withTerms(terms.stream().mapToInt(Integer::intValue).toArray());
         if (!limit.isEmpty()) {
@@ -368,8 +380,8 @@ final class SeriesCommand implements Callable<Integer> {
                     continue;
                 }
                 SeriesFit.Member m = p.member().get();
-                predicted.add("prediction", name, p.n(), m.energyPerCm(), p.uncertaintyPerCm(1),
-                        p.uncertaintyPerCm(scale), p.truncationPerCm(), m.quantumDefect(), mean, u,
+                predicted.add("prediction", name, p.n(), m.energyPerCm(), m.uncertaintyPerCm(),
+                        m.uncertaintyPerCm(scale), m.truncationPerCm(), m.quantumDefect(), mean, u,
                         mean == null ? "averaged withheld (see note)"
                                 : p.note().isPresent() ? "below the measured members" : null);
             }

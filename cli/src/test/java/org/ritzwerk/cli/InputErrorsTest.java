@@ -214,4 +214,42 @@ class InputErrorsTest {
         double z = Double.parseDouble(row[sigma]);
         assertTrue(r < 0 && z < 0, run.out());
     }
+
+    /** A series file of an isotope without nuclear data says how to give its mass. */
+    @Test
+    void aSeriesOfAnIsotopeWithoutMassSaysWhatToGive(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("sr87.csv");
+        Files.writeString(file, "# ritzwerk-series 1\n# species: Sr-87 I\n# energy-unit: cm-1\n"
+                + "series,n,energy,uncertainty\nS,20,45600.1,0.002\nS,22,45650.2,0.002\nS,24,45700.3,0.002\n");
+        CliTest.Run run = CliTest.run("series", file.toString());
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().contains(file + ": '# species: Sr-87 I': no nuclear data for Sr-87")
+                && run.err().contains("give an isotope table of your own with --data"), run.err());
+    }
+
+    /** An uncertainty of 0 and a negative one get the same message, with the value. */
+    @Test
+    void aSeriesUncertaintyNotPositiveHasOneMessage(@TempDir Path dir) throws IOException {
+        for (String u : new String[] {"0", "-0.002"}) {
+            Path file = dir.resolve("s" + u + ".csv");
+            Files.writeString(file, "# ritzwerk-series 1\n# species: Rb-87 I\n# energy-unit: cm-1\n"
+                    + "series,n,energy,uncertainty\nS,20,33000.1," + u + "\nS,22,33100.2,0.002\n");
+            CliTest.Run run = CliTest.run("series", file.toString());
+            assertEquals(2, run.code(), run.err());
+            assertTrue(run.err().contains(file + ":5:4: column uncertainty: uncertainty must be positive, got " + u),
+                    run.err());
+        }
+    }
+
+    /** fit-levels echoes an uncertainty in cm-1 as given (0.001 came back as 9.999999999961507E-4). */
+    @Test
+    void fitLevelsEchoesTheUncertaintyAsGiven(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("lines.csv");
+        Files.writeString(file, "# ritzwerk-measured-lines 1\n# position-unit: cm-1\nposition,uncertainty,upper,lower\n"
+                + "1000.002041,0.001,b 1,a 0\n2500.494889,0.002,c 1,a 0\n1500.49,0.001,c 1,b 1\n");
+        CliTest.Run run = CliTest.run("fit-levels", file.toString(), "--reference", "a 0", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("\"uncertainty_per_cm\":0.001,") && run.out().contains(
+                "\"uncertainty_per_cm\":0.002,"), run.out());
+    }
 }

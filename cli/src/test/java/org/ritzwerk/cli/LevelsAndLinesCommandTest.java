@@ -131,8 +131,11 @@ class LevelsAndLinesCommandTest {
         // He I has a built-in level list now (its Ritz lines: LevelSetCommandsTest); Ne I has none
         CliTest.Run neon = CliTest.run("lines", "--species", "Ne I", "--from", "400 nm", "--to", "700 nm");
         assertEquals(2, neon.code());
-        assertEquals("ritzwerk lines: Ne I: levels and lines cover one-electron ions (H I, D I, He II, C VI, ...) and"
-                + " the neutral alkali atoms [Li-6 I, Li-7 I, Na-23 I, K-39 I, K-40 I, K-41 I, Rb-85 I, Rb-87 I, Cs-133 I]",
+        assertEquals("ritzwerk lines: Ne I: levels and lines cover one-electron ions (H I, D I, He II, C VI, ...), "
+                + "the neutral alkali atoms [Li-6 I, Li-7 I, Na-23 I, K-39 I, K-40 I, K-41 I, Rb-85 I, Rb-87 I, "
+                + "Cs-133 I]"
+                + " and the species with a level list [He I, Sr-88 I]; another species needs a level list of your own "
+                + "(ritzwerk-levels format) with --data",
                 neon.err().strip());
         CliTest.Run isotope = CliTest.run("levels", "--species", "Fe-60 XXVI");
         assertEquals(2, isotope.code());
@@ -143,5 +146,79 @@ class LevelsAndLinesCommandTest {
         CliTest.Run window = CliTest.run("lines", "--species", "H", "--from", "400 nm", "--to", "400 nm");
         assertEquals(2, window.code());
         assertTrue(window.err().contains("give a window"), window.err());
+    }
+
+    /** A ladder says that its steps join fine-structure centroids and where the hyperfine components are. */
+    @Test
+    void aLadderSaysItsStepsAreCentroids() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,50s1/2");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("780.241210"), run.out());
+        assertTrue(run.err().contains("note: --ladder: the steps join fine-structure centroids; hyperfine structure "
+                + "is left out") && run.err().contains("ritzwerk lines --species \"Rb-87 I\" --hyperfine"), run.err());
+        assertTrue(CliTest.run("lines", "--help").out().contains("fine-structure centroids"));
+    }
+
+    /**
+     * 0 K is a black-body temperature (none): the library took it, the command now does too, and the effective
+     * lifetime there is the spontaneous one; below 0 is still refused.
+     */
+    @Test
+    void zeroKelvinIsNoBlackBodyRadiation() {
+        CliTest.Run transition = CliTest.run("lines", "--species", "Rb-87 I", "--transition", "50d5/2 -> 51p3/2",
+                "--temperature", "0", "--format", "json");
+        assertEquals(0, transition.code(), transition.err());
+        JsonNode row = new JsonMapper().readTree(transition.out().strip());
+        assertEquals(row.get("upper_lifetime_s").asDouble(), row.get("upper_effective_lifetime_s").asDouble());
+        assertEquals(row.get("lower_lifetime_s").asDouble(), row.get("lower_effective_lifetime_s").asDouble());
+        CliTest.Run levels = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "6", "--l-max", "0",
+                "--lifetimes", "--temperature", "0", "--format", "json");
+        assertEquals(0, levels.code(), levels.err());
+        JsonNode six = new JsonMapper().readTree(levels.out().lines().reduce((a, b) -> b).orElseThrow());
+        assertEquals(six.get("lifetime_s").asDouble(), six.get("effective_lifetime_s").asDouble(), six.toString());
+        CliTest.Run cold = CliTest.run("levels", "--species", "Rb-87 I", "--lifetimes", "--temperature", "-1");
+        assertEquals(2, cold.code());
+        assertTrue(cold.err().contains("a temperature from 0 (no black-body radiation) to below 1e5 K"), cold.err());
+    }
+
+    /** levels --help says what --lifetimes gives 2s: its two-photon and M1 decays are included (0.1216 s in H). */
+    @Test
+    void theLifetimesHelpSaysTwoPhotonDecayOf2sIsIncluded() {
+        String help = CliTest.run("levels", "--help").out().replaceAll("\\s+", " ");
+        assertTrue(help.contains("its two-photon and magnetic-dipole decays to 1s (0.1216 s in H)")
+                && !help.contains("which is not included"), help);
+        CliTest.Run h = CliTest.run("levels", "--species", "H I", "--n-max", "2", "--lifetimes", "--model", "bohr",
+                "--format", "json");
+        assertEquals(0, h.code(), h.err());
+        JsonNode twoS = new JsonMapper().readTree(h.out().lines().skip(1).findFirst().orElseThrow());
+        // 1 / (8.2245 s^-1) for hydrogen's two-photon decay (README, from memory): 0.1216 s
+        assertEquals(0.1216, twoS.get("lifetime_s").asDouble(), 0.0001, twoS.toString());
+    }
+
+    /** Every field of lines --hyperfine in JSON (with a field and air) is named in the README. */
+    @Test
+    void theHyperfineJsonFieldsAreDocumented() throws java.io.IOException {
+        String readme = java.nio.file.Files.readString(java.nio.file.Path.of("..", "README.md"));
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "0.001",
+                "--medium", "air", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        JsonNode row = new JsonMapper().readTree(run.out().lines().findFirst().orElseThrow());
+        List<String> missing = new ArrayList<>();
+        row.propertyNames().forEach(name -> {
+            if (!readme.contains("`" + name + "`")) {
+                missing.add(name);
+            }
+        });
+        assertTrue(missing.isEmpty(), "not in the README: " + missing);
+        assertTrue(readme.contains("`relative_strength` (the text column `share`"));
+    }
+
+    /** A species with neither a model nor a level list names the species that have a level list. */
+    @Test
+    void anIsotopeWithoutALevelListNamesTheListedOne() {
+        CliTest.Run sr = CliTest.run("levels", "--species", "Sr-87 I");
+        assertEquals(2, sr.code());
+        assertTrue(sr.err().contains("the species with a level list [He I, Sr-88 I] (Sr-88 I is listed, not Sr-87 I)")
+                && sr.err().contains("a level list of your own (ritzwerk-levels format) with --data"), sr.err());
     }
 }

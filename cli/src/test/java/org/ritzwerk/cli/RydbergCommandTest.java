@@ -189,4 +189,39 @@ class RydbergCommandTest {
         assertEquals(0, usual.code(), usual.err());
         assertTrue(!usual.err().contains("note:"), usual.err());
     }
+
+    /**
+     * A pair state that shares its energy and M with other pair states (two Rb 60d5/2 with m = 1/2) gets a note
+     * naming them, with the eigenvalues of the manifold's C6 matrix and the blockade radius range (an atom-sensor
+     * review: the printed C6 -331.29 GHz um^6 was the diagonal element, the potentials' C6 about -506, -140 and
+     * -34, as pair-potential shows at 10 um); a pair alone in its manifold (70s1/2, m = 1/2) gets none.
+     */
+    @Test
+    void aPairStateThatMixesInItsDegenerateManifoldIsSaid() {
+        CliTest.Run d = CliTest.run("rydberg", "pair", "--species", "Rb-87 I", "--state", "60d5/2", "--rabi", "1");
+        assertEquals(0, d.code(), d.err());
+        assertTrue(d.err().contains("note: 60d5/2(m=1/2) 60d5/2(m=1/2) is degenerate with 4 other pair states of "
+                + "the same M") && d.err().contains("60d5/2(m=5/2) 60d5/2(m=-3/2)")
+                && d.err().contains("see rydberg pair-potential"), d.err());
+        java.util.regex.Matcher c6 = java.util.regex.Pattern.compile("C6 = (-?[0-9.]+) \\(share ([0-9.]+)\\), "
+                + "(-?[0-9.]+) \\(share ([0-9.]+)\\), (-?[0-9.]+) \\(share ([0-9.]+)\\) GHz um\\^6").matcher(d.err());
+        assertTrue(c6.find(), d.err());
+        double mean = 0;
+        for (int k = 0; k < 3; k++) {
+            mean += Double.parseDouble(c6.group(2 * k + 1)) * Double.parseDouble(c6.group(2 * k + 2));
+        }
+        // the share-weighted mean of the eigenvalues is the printed C6 (to the note's rounding: shares to 1e-4)
+        assertEquals(-331.293, mean, 0.1);
+        assertEquals(-506.2, Double.parseDouble(c6.group(1)), 1);
+        assertEquals(-34.2, Double.parseDouble(c6.group(5)), 0.5);
+        assertTrue(d.err().contains("the blockade radius for those lies from 5.69") && d.err().contains("to 8.92"),
+                d.err());
+        CliTest.Run stretched = CliTest.run("rydberg", "pair", "--species", "Rb-87 I", "--state", "60d5/2", "--mj",
+                "5/2");
+        assertEquals(0, stretched.code(), stretched.err());
+        assertFalse(stretched.err().contains("degenerate"), stretched.err());
+        CliTest.Run s = CliTest.run("rydberg", "pair", "--species", "Rb-87 I", "--state", "70s1/2");
+        assertEquals(0, s.code(), s.err());
+        assertFalse(s.err().contains("degenerate"), s.err());
+    }
 }

@@ -38,7 +38,8 @@ import org.ritzwerk.quantity.Unit;
  * <p>Positions become vacuum wavenumbers (cm^-1) through the medium's dispersion; an uncertainty u
  * becomes {@code u |d sigma / dx|}, the first-order propagation through the conversion (JCGM
  * 100:2008, eq. 10), the derivative by a central difference of step {@code 1e-5 x}, so that for
- * wavelengths in air it includes the air's dispersion.
+ * wavelengths in air it includes the air's dispersion. Positions already in cm^-1 (an identity
+ * conversion) keep their uncertainty exactly as given.
  *
  * <p>Refused, every problem with file, line and column, all at once: the tabular rules, a
  * position outside the medium's range, upper and lower the same level, and a pair of levels given
@@ -169,7 +170,10 @@ public final class MeasuredLineFiles {
                 p.rowProblem(row, "position", "data.outside-medium", e.getMessage());
                 continue;
             }
-            double sigma = uncertainty * Math.abs(x[1] - x[2]) / (2 * h);
+            // an identity conversion (positions in cm-1) keeps the uncertainty as given: the central
+            // difference would return it with a rounding error (0.001 as 9.999999999961507e-4)
+            boolean identity = x[0] == position && x[1] == position + h && x[2] == position - h;
+            double sigma = identity ? uncertainty : uncertainty * Math.abs(x[1] - x[2]) / (2 * h);
             lines.add(new Line(x[0], sigma, upper, lower, source + ":" + row.line()));
         }
         if (p.problems.isEmpty() && lines.isEmpty()) {

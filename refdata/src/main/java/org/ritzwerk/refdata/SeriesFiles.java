@@ -118,16 +118,19 @@ public final class SeriesFiles {
                         + "one series)");
             }
             double n = p.number(row, "n", true);
-            double energy = p.number(row, "energy", true);
-            double uncertainty = p.number(row, "uncertainty", true);
+            // signed: zero and a negative value get one message each, naming the value
+            double energy = p.signedNumber(row, "energy", true);
+            double uncertainty = p.signedNumber(row, "uncertainty", true);
             if (!Double.isNaN(n) && (n != Math.rint(n) || n < 1 || n > 10000)) {
                 p.rowProblem(row, "n", "data.bad-n", "n must be an integer 1 to 10000, got " + row.values().get("n"));
             }
             if (!Double.isNaN(energy) && !(energy > 0)) {
-                p.rowProblem(row, "energy", "data.not-positive", "energy must be above 0 (the ground level)");
+                p.rowProblem(row, "energy", "data.not-positive", "energy must be above 0 (the ground level), got "
+                        + row.values().get("energy"));
             }
             if (!Double.isNaN(uncertainty) && !(uncertainty > 0)) {
-                p.rowProblem(row, "uncertainty", "data.not-positive", "uncertainty must be positive");
+                p.rowProblem(row, "uncertainty", "data.not-positive", "uncertainty must be positive, got "
+                        + row.values().get("uncertainty"));
             }
             if (p.problems.size() != before || name == null) {
                 continue;

@@ -77,17 +77,17 @@ class HeliumPredictedLevelsTest {
                 Integer i = byLabel.get(label);
                 assertTrue(i != null, label + " missing");
                 predicted++;
-                SeriesFit.Member m = fit.predict(0, n);
+                SeriesFit.Member m = fit.prediction(0, n).memberOrThrow();
                 double u = list.uncertainty(i).orElseThrow();
                 assertEquals(m.energyPerCm(), list.energy(i), Math.min(1e-4, 0.01 * u), label);
                 Matcher parts = FIT_U.matcher(list.rowNote(i));
                 assertTrue(parts.find() && list.rowNote(i).startsWith("computed"), list.rowNote(i));
                 double fitPart = Double.parseDouble(parts.group(1));
                 double truncation = Double.parseDouble(parts.group(2));
-                assertEquals(fitPart, m.uncertaintyPerCm(), 0.05 * fitPart, label + " covariance part");
-                assertTrue(u >= Math.hypot(m.uncertaintyPerCm(), truncation) * 0.99, label + " u = " + u);
+                assertEquals(fitPart, m.fitUncertaintyPerCm(), 0.05 * fitPart, label + " covariance part");
+                assertTrue(u >= Math.hypot(m.fitUncertaintyPerCm(), truncation) * 0.99, label + " u = " + u);
                 // the truncation part is what makes the uncertainty honest: far above the covariance's
-                assertTrue(truncation > 3 * m.uncertaintyPerCm(), label + ": " + list.rowNote(i));
+                assertTrue(truncation > 3 * m.fitUncertaintyPerCm(), label + ": " + list.rowNote(i));
             }
         }
         assertEquals(36, predicted);

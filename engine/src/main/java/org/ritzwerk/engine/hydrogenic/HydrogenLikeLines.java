@@ -25,9 +25,10 @@ import org.ritzwerk.engine.internal.radial.RadialIntegrals;
  * n -> n': frequency weighted by line strength, S summed, {@code A = sum g_u A / (2 n^2)},
  * {@code f = sum g_l f / (2 n'^2)}.
  *
- * <p>Magnetic-dipole and two-photon decays are not included, so a level with no E1 decay (1s,
- * and 2s below the QED tier) has an infinite lifetime here; the real 2s lifetime is set by
- * two-photon decay (about 0.12 s).
+ * <p>The lines are E1 only. A lifetime ({@link #lifetime}) sums a level's E1 decays, and for 2s1/2,
+ * which has none to 1s, adds its two-photon and magnetic-dipole decays ({@link #metastableDecayRate},
+ * about 0.12 s in hydrogen); other M1, E2 and two-photon decays are left out, and 1s has an infinite
+ * lifetime.
  *
  * <p>Immutable and thread-safe.
  */

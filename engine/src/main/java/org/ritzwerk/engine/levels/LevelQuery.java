@@ -104,7 +104,8 @@ public final class LevelQuery {
 
     /**
      * @param on whether each level gets its radiative lifetime from E1 decays (none for a ground
-     *           level; the two-photon decay of 2s is not included)
+     *           level; 2s1/2 of a one-electron ion from its two-photon and magnetic-dipole decays to 1s,
+     *           {@link org.ritzwerk.engine.hydrogenic.HydrogenLikeLines#metastableDecayRate})
      * @return this query so
      */
     public LevelQuery withLifetimes(boolean on) {
@@ -112,15 +113,17 @@ public final class LevelQuery {
     }
 
     /**
-     * @param kelvin a black-body temperature above 0 and below 1e5 K: alkali levels also get their
+     * @param kelvin a black-body temperature from 0 to below 1e5 K: alkali levels also get their
      *               effective lifetime with black-body stimulated decays and excitation to bound
-     *               levels (photoionisation left out); needs {@link #withLifetimes lifetimes}
+     *               levels (photoionisation left out; at 0 K there is no black-body radiation and it
+     *               is the spontaneous lifetime, as {@link AlkaliAtom#effectiveLifetime} gives); needs
+     *               {@link #withLifetimes lifetimes}
      * @return this query so
      * @throws IllegalArgumentException outside that range
      */
     public LevelQuery withBlackBodyTemperature(double kelvin) {
-        if (!(kelvin > 0 && kelvin < AlkaliAtom.MAX_BLACK_BODY_TEMPERATURE_K)) {
-            throw new IllegalArgumentException("the black-body temperature must be above 0 and below 1e5 K, got "
+        if (!(kelvin >= 0 && kelvin < AlkaliAtom.MAX_BLACK_BODY_TEMPERATURE_K)) {
+            throw new IllegalArgumentException("the black-body temperature must be 0 to below 1e5 K, got "
                     + kelvin);
         }
         return new LevelQuery(maxN, maxL, lifetimes, kelvin, hyperfine);

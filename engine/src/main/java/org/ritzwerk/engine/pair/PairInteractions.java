@@ -1,8 +1,14 @@
 package org.ritzwerk.engine.pair;
 
 import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
+import org.apache.commons.math4.legacy.linear.Array2DRowRealMatrix;
+import org.apache.commons.math4.legacy.linear.EigenDecomposition;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.internal.angular.WignerSymbols;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
@@ -32,9 +38,12 @@ import org.ritzwerk.engine.stark.StarkException;
  * 032723 (2008); K. Singer, J. Stanojevic, M. Weidemueller and R. Cote, J. Phys. B 38, S295
  * (2005); from memory). A channel at zero defect (an exact Foerster resonance) is refused
  * ({@link StarkException#DEGENERATE}); near one, C6 is large and changes sign across it. The
- * result is valid where |A> is not mixed with another pair state of the same energy at second
+ * result is one potential's where |A> is not mixed with another pair state of the same energy at second
  * order (it is not, at theta = 0, for a pair whose M = m1 + m2 is shared by no other
- * combination of the two levels, e.g. two nS1/2 with m = 1/2).
+ * combination of the two levels, e.g. two nS1/2 with m = 1/2, or the stretched pair of two nD5/2
+ * with m = 5/2). Elsewhere it is the diagonal element of a degenerate manifold's C6 matrix, and
+ * {@link #c6Manifold} gives that matrix's eigenvalues, the C6 of the potentials the pair state splits
+ * into (two Rb 60d5/2 with m = 1/2: three, from a factor 15 apart).
  *
  * <p>Immutable and thread-safe.
  */
@@ -139,6 +148,10 @@ public final class PairInteractions {
         return c3Au * AtomicUnits.HARTREE_HZ * Math.pow(AtomicUnits.BOHR_METRES, 3);
     }
 
+    /** One atom's state with its projection (a key for an intermediate state's atom). */
+    private record Single(State state, int twoM) {
+    }
+
     /** One dipole-coupled state with its projection: the element {@code <k m'|d_q|a m>} and its energy. */
     private record Channel(State state, int twoM, int q, double dipole, double energyHartree) {
     }
@@ -236,6 +249,129 @@ public final class PairInteractions {
         PairState strongest = new PairState(best1.state(), best1.twoM(), best2.state(), best2.twoM());
         return new DispersionCoefficient(pair, c6, angle, range, count, strongest, bestDefect * AtomicUnits.HARTREE_HZ,
                 strongestValue / c6);
+    }
+
+    /**
+     * The C6 matrix of the degenerate manifold of a pair state and its eigenvalues (second-order
+     * perturbation theory in the degenerate Zeeman manifold, T. G. Walker and M. Saffman, Phys. Rev. A
+     * 77, 032723 (2008), from memory): over the pair states B of the same two levels (every m_j, both
+     * orderings of two different levels, only B with the pair's M at theta = 0, where V conserves M),
+     * {@code C6_AB = - sum_k <A|R^3 V|k><k|R^3 V|B> / Delta_k} with the intermediate states and
+     * Foerster defects of {@link #c6}. Its diagonal element at the pair state is {@link #c6}'s C6.
+     *
+     * @param pair the pair state
+     * @return the manifold, its eigenvalues and the pair state's share in each eigenvector
+     * @throws IllegalArgumentException for two different levels that are dipole-coupled (their pair states
+     *                                  couple at first order, C3: {@link #c3Au})
+     * @throws RydbergException         when the model has no level for either atom's state
+     * @throws StarkException           ({@link StarkException#DEGENERATE}) at an exact Foerster resonance
+     */
+    public DispersionManifold c6Manifold(PairState pair) {
+        Objects.requireNonNull(pair, "pair");
+        State a = pair.first();
+        State b = pair.second();
+        if (!a.equals(b) && Math.abs(a.l() - b.l()) == 1) {
+            throw new IllegalArgumentException(pair.label() + ": the two levels are dipole-coupled, so the pair "
+                    + "states couple at first order (C3), not through C6");
+        }
+        boolean axial = angle == 0;
+        int twoMTotal = pair.twoM1() + pair.twoM2();
+        List<PairState> states = new ArrayList<>();
+        for (State[] order : a.equals(b) ? new State[][] {{a, b}} : new State[][] {{a, b}, {b, a}}) {
+            for (int m1 = -order[0].twoJ(); m1 <= order[0].twoJ(); m1 += 2) {
+                for (int m2 = -order[1].twoJ(); m2 <= order[1].twoJ(); m2 += 2) {
+                    if (!axial || m1 + m2 == twoMTotal) {
+                        states.add(new PairState(order[0], m1, order[1], m2));
+                    }
+                }
+            }
+        }
+        int size = states.size();
+        double e0 = AtomicUnits.hartreeFromPerCm(atom.energyPerCm(a) + atom.energyPerCm(b));
+        // The intermediate states |k1 m1'; k2 m2'> grouped by the first atom's |k1 m1'>, one group at a time,
+        // so that the amplitudes <k|R^3 V|A> held at once stay few (one group's second-atom states).
+        Map<String, List<Channel>> cache = new HashMap<>();
+        List<List<Channel>> seconds = new ArrayList<>();
+        Map<Single, List<int[]>> byFirst = new LinkedHashMap<>();   // |k1 m1'> -> {manifold index, channel index}
+        List<List<Channel>> firsts = new ArrayList<>();
+        for (int i = 0; i < size; i++) {
+            PairState s = states.get(i);
+            List<Channel> first = cache.computeIfAbsent(s.first().label() + "|" + s.twoM1(),
+                    key -> channels(s.first(), s.twoM1()));
+            firsts.add(first);
+            seconds.add(cache.computeIfAbsent(s.second().label() + "|" + s.twoM2(),
+                    key -> channels(s.second(), s.twoM2())));
+            for (int c = 0; c < first.size(); c++) {
+                byFirst.computeIfAbsent(new Single(first.get(c).state(), first.get(c).twoM()),
+                        key -> new ArrayList<>()).add(new int[] {i, c});
+            }
+        }
+        double[][] c6 = new double[size][size];
+        for (List<int[]> group : byFirst.values()) {
+            Map<Single, double[]> amplitudes = new HashMap<>();
+            Map<Single, Double> defects = new HashMap<>();
+            for (int[] member : group) {
+                int i = member[0];
+                Channel c1 = firsts.get(i).get(member[1]);
+                for (Channel c2 : seconds.get(i)) {
+                    double v = weight(c1.q(), c2.q()) * c1.dipole() * c2.dipole();
+                    if (v == 0) {
+                        continue;
+                    }
+                    double defect = c1.energyHartree() + c2.energyHartree() - e0;
+                    if (Math.abs(defect) < 1e-14) {
+                        throw new StarkException(StarkException.DEGENERATE, states.get(i).label() + " is in exact "
+                                + "Foerster resonance with " + new PairState(c1.state(), c1.twoM(), c2.state(),
+                                c2.twoM()).label() + " in this model; second-order perturbation theory does not "
+                                + "hold there");
+                    }
+                    Single k2 = new Single(c2.state(), c2.twoM());
+                    amplitudes.computeIfAbsent(k2, key -> new double[size])[i] += v;
+                    defects.put(k2, defect);
+                }
+            }
+            for (Map.Entry<Single, double[]> e : amplitudes.entrySet()) {
+                double[] v = e.getValue();
+                double inverse = 1 / defects.get(e.getKey());
+                for (int i = 0; i < size; i++) {
+                    if (v[i] == 0) {
+                        continue;
+                    }
+                    for (int j = 0; j < size; j++) {
+                        c6[i][j] -= v[i] * v[j] * inverse;
+                    }
+                }
+            }
+        }
+        int target = states.indexOf(pair);
+        double[] values;
+        double[] shares = new double[size];
+        if (size == 1) {
+            values = new double[] {c6[0][0]};
+            shares[0] = 1;
+        } else {
+            for (int i = 0; i < size; i++) {
+                for (int j = 0; j < i; j++) {
+                    double mean = (c6[i][j] + c6[j][i]) / 2;
+                    c6[i][j] = mean;
+                    c6[j][i] = mean;
+                }
+            }
+            EigenDecomposition eigen = new EigenDecomposition(new Array2DRowRealMatrix(c6, false));
+            double[] raw = eigen.getRealEigenvalues();
+            Integer[] order = new Integer[size];
+            for (int i = 0; i < size; i++) {
+                order[i] = i;
+            }
+            Arrays.sort(order, (x, y) -> Double.compare(raw[x], raw[y]));
+            values = new double[size];
+            for (int i = 0; i < size; i++) {
+                values[i] = raw[order[i]];
+                double overlap = eigen.getEigenvector(order[i]).getEntry(target);
+                shares[i] = overlap * overlap;
+            }
+        }
+        return new DispersionManifold(pair, states, values, shares, c6[target][target]);
     }
 
     /**

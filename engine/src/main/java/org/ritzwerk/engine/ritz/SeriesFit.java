@@ -74,39 +74,53 @@ public final class SeriesFit {
     }
 
     /**
-     * A member of a series computed from the fit.
+     * A member of a series computed from the fit, with its whole standard uncertainty and its two parts.
      *
-     * @param n                principal quantum number
-     * @param energyPerCm      its energy above the ground level, cm^-1
-     * @param uncertaintyPerCm the standard uncertainty from the fit's covariance, cm^-1
-     * @param quantumDefect    delta(n) of the fit
+     * @param n                   principal quantum number
+     * @param energyPerCm         its energy above the ground level, cm^-1
+     * @param fitUncertaintyPerCm the standard uncertainty from the fit's covariance alone (stated, unscaled),
+     *                            cm^-1
+     * @param truncationPerCm     the standard uncertainty for the truncation of the defect expansion below the
+     *                            lowest measured member ({@link #predictions}), cm^-1; 0 at or above it
+     * @param quantumDefect       delta(n) of the fit
      */
-    public record Member(int n, double energyPerCm, double uncertaintyPerCm, double quantumDefect) {
+    public record Member(int n, double energyPerCm, double fitUncertaintyPerCm, double truncationPerCm,
+            double quantumDefect) {
+
+        /** @return the whole standard uncertainty {@code sqrt(u_fit^2 + u_truncation^2)}, cm^-1 */
+        public double uncertaintyPerCm() {
+            return uncertaintyPerCm(1);
+        }
+
+        /**
+         * @param scale the factor for the fit's part (1, or {@link SeriesFit#uncertaintyScale()}), at least 0
+         * @return {@code sqrt((scale u_fit)^2 + u_truncation^2)}, cm^-1
+         */
+        public double uncertaintyPerCm(double scale) {
+            return Math.hypot(scale * fitUncertaintyPerCm, truncationPerCm);
+        }
     }
 
     /**
-     * A prediction asked of one series ({@link #predictions}): the member where the fitted series is
-     * physically ordered there, and a note where it is not or where the defect expansion is
-     * extrapolated below the lowest measured member.
+     * A prediction asked of one series ({@link #predictions}, {@link #prediction(int, int)}): the member where
+     * the fitted series is physically ordered there, and a note where it is not or where the defect expansion
+     * is extrapolated below the lowest measured member.
      *
-     * @param series          the series index
-     * @param n               the principal quantum number asked
-     * @param member          the predicted member (its uncertainty from the fit's covariance alone), or empty
-     *                        where the prediction is withheld
-     * @param truncationPerCm the standard uncertainty added for the truncation of the defect expansion below
-     *                        the lowest measured member, cm^-1 (0 at or above it, and without a member)
-     * @param note            why there is no member, or that the prediction lies below the measured
-     *                        members; empty otherwise
+     * @param series the series index
+     * @param n      the principal quantum number asked
+     * @param member the predicted member, its uncertainty including the truncation below the measured members;
+     *               empty where the prediction is withheld
+     * @param note   why there is no member, or that the prediction lies below the measured members; empty
+     *               otherwise
      */
-    public record Prediction(int series, int n, Optional<Member> member, double truncationPerCm,
-            Optional<String> note) {
+    public record Prediction(int series, int n, Optional<Member> member, Optional<String> note) {
 
         /**
-         * @param scale the factor for the fit's part (1, or {@link #uncertaintyScale()})
-         * @return {@code sqrt((scale u_fit)^2 + u_truncation^2)}, cm^-1, or NaN without a member
+         * @return the member
+         * @throws IllegalStateException where the prediction is withheld, with the note saying why
          */
-        public double uncertaintyPerCm(double scale) {
-            return member.map(m -> Math.hypot(scale * m.uncertaintyPerCm(), truncationPerCm)).orElse(Double.NaN);
+        public Member memberOrThrow() {
+            return member.orElseThrow(() -> new IllegalStateException(note.orElse("n = " + n + " is withheld")));
         }
     }
 
@@ -709,7 +723,7 @@ public final class SeriesFit {
             Prediction p = tried.get(m) == chosen ? mine : prediction(tried.get(m), s, k);
             if (p.member().isPresent()) {
                 x[m] = p.member().get().energyPerCm();
-                double u = p.uncertaintyPerCm(1);
+                double u = p.member().get().uncertaintyPerCm();
                 v[m] = u * u;
                 taken[m] = true;
             } else {
@@ -818,7 +832,7 @@ public final class SeriesFit {
      * <p><b>Below the lowest measured member</b> the defect expansion is extrapolated downwards, where
      * its truncation dominates: the terms left out grow as {@code (n - d0)^-2} per order. The
      * prediction then carries, in quadrature with the fit's uncertainty ({@link
-     * Prediction#uncertaintyPerCm}), the size of the last fitted term at that n carried to energy,
+     * Member#uncertaintyPerCm()}), the size of the last fitted term at that n carried to energy,
      * {@code u_trunc = |d_last / (n - d0)^(2k)| 2 R_M / (n - delta(n))^3} (common practice: the
      * first omitted term taken as no larger than the last kept one). A series fitted with d0 alone
      * gives no such estimate, and its members below the lowest measured one are withheld. Checked on
@@ -875,7 +889,7 @@ public final class SeriesFit {
                     + "ground level (energies are above it): no such level; not predicted", one.name(), k));
         }
         if (k >= lowest) {
-            return new Prediction(s, k, Optional.of(member), 0, Optional.empty());
+            return new Prediction(s, k, Optional.of(member), Optional.empty());
         }
         if (t.terms[s] < 2) {
             return withheld(s, k, String.format(Locale.ROOT, "n = %d lies below the lowest member of %s "
@@ -884,14 +898,16 @@ public final class SeriesFit {
                     lowest));
         }
         double truncation = truncationPerCm(t, s, k, member.quantumDefect());
-        return new Prediction(s, k, Optional.of(member), truncation, Optional.of(String.format(Locale.ROOT,
+        Member whole = new Member(k, member.energyPerCm(), member.fitUncertaintyPerCm(), truncation,
+                member.quantumDefect());
+        return new Prediction(s, k, Optional.of(whole), Optional.of(String.format(Locale.ROOT,
                 "n = %d lies below the lowest member of %s (n = %d): the defect expansion is extrapolated "
                 + "downwards there; its uncertainty includes %.3g cm-1 for the truncation (the last "
                 + "fitted term's size at n = %d)", k, one.name(), lowest, truncation, k)));
     }
 
     private static Prediction withheld(int s, int n, String note) {
-        return new Prediction(s, n, Optional.empty(), 0, Optional.of(note));
+        return new Prediction(s, n, Optional.empty(), Optional.of(note));
     }
 
     /**
@@ -933,18 +949,20 @@ public final class SeriesFit {
     }
 
     /**
+     * One member of one series, by the one rule of {@link #predictions}: withheld (an empty member and a note)
+     * where the fitted series is not physically ordered, and below the lowest measured member with the
+     * truncation of the defect expansion in its uncertainty. {@code prediction(s, n)} is
+     * {@code predictions(n).get(s)}.
+     *
      * @param s series index
-     * @param n principal quantum number (measured or not), above the series' d0
-     * @return the member's energy, its uncertainty from the covariance, and delta(n)
-     * @throws IllegalArgumentException for a series index out of range, n below 1, or an n where the
-     *                                  fitted defect leaves no positive effective n (no member there)
+     * @param n principal quantum number (measured or not), at least 1
+     * @return the prediction
+     * @throws IllegalArgumentException for a series index out of range or n below 1
      */
-    public Member predict(int s, int n) {
+    public Prediction prediction(int s, int n) {
         checkSeries(s);
-        if (n < 1) {
-            throw new IllegalArgumentException("n must be at least 1, got " + n);
-        }
-        return checkedMember(chosen, s, n);
+        checkN(n);
+        return prediction(chosen, s, n);
     }
 
     private void checkSeries(int s) {
@@ -985,7 +1003,7 @@ public final class SeriesFit {
             }
         }
         double defect = AlkaliAtom.rydbergRitzDefect(c, n);
-        return new Member(n, model.offset + e, Math.sqrt(Math.max(0, v)), defect);
+        return new Member(n, model.offset + e, Math.sqrt(Math.max(0, v)), 0, defect);
     }
 
     private int first(int s) {

@@ -141,9 +141,11 @@ class LevelQueryTest {
         assertThrows(IllegalArgumentException.class, () -> query.withMaxN(2001));
         assertThrows(IllegalArgumentException.class, () -> query.withMaxL(-1));
         assertThrows(IllegalArgumentException.class, () -> query.withMaxL(51));
-        for (double bad : new double[] {0, -1, 1e5, Double.NaN, Double.POSITIVE_INFINITY}) {
+        for (double bad : new double[] {-1, -Double.MIN_VALUE, 1e5, Double.NaN, Double.POSITIVE_INFINITY}) {
             assertThrows(IllegalArgumentException.class, () -> query.withBlackBodyTemperature(bad), "T = " + bad);
         }
+        // 0 K is no black-body radiation, as AlkaliAtom.effectiveLifetime takes it (it was refused here)
+        assertTrue(query.withBlackBodyTemperature(0).toString().contains("black body 0.0 K"), query.toString());
         assertThrows(IllegalArgumentException.class, () -> LevelSources.none().withHydrogenLike(Species.parse("He II"),
                 HydrogenLikeModel.of(PROTON, Tier.QED)));
     }

@@ -66,7 +66,8 @@ class RitzUserGuideTest {
                 .build();
         SeriesFit fit = SeriesFitter.defaults().fit(109736.623, List.of(series));   // R_M of the isotope, cm-1
         double limit = fit.limitPerCm();                                    // fit.defects(0), fit.covariance()
-        SeriesFit.Member n60 = fit.predict(0, 60);                          // energy with its uncertainty
+        SeriesFit.Prediction p60 = fit.prediction(0, 60);                  // same rule as predictions(...)
+        SeriesFit.Member n60 = p60.memberOrThrow();                         // energy, whole uncertainty
         SeriesFit known = SeriesFitter.defaults().withLimit(33690.80, 0.01).fit(109736.623, List.of(series));
         // --- end ---
         assertEquals(33690.804, limit, 0.01);
