@@ -393,8 +393,8 @@ public final class CalibrationFiles {
         if (degree != null && !degree.isNull()) {
             if (!degree.isIntegralNumber() || !degree.canConvertToInt() || degree.asInt() != polynomial.degree()) {
                 throw invalid(source, "\"degree\" is " + TabularFiles.shown(degree) + ", but \"coefficients_nm\" holds "
-                        + polynomial.coefficients().length + " coefficients, a polynomial of degree " + polynomial.degree()
-                        + ": the file contradicts itself");
+                        + polynomial.coefficients().length + " coefficients, a polynomial of degree "
+                        + polynomial.degree() + ": the file contradicts itself");
             }
         }
         JsonNode power = root.get("power_coefficients_nm");
@@ -469,8 +469,8 @@ public final class CalibrationFiles {
         JsonNode v = root.get(name);
         if (v != null && !v.isNull()
                 && (!v.isIntegralNumber() || !v.canConvertToInt() || v.asInt() != count)) {
-            throw invalid(source, "\"" + name + "\" is " + TabularFiles.shown(v) + ", but " + count + " of \"lines\" are "
-                    + which + ": the file contradicts itself");
+            throw invalid(source, "\"" + name + "\" is " + TabularFiles.shown(v) + ", but " + count
+                    + " of \"lines\" are " + which + ": the file contradicts itself");
         }
     }
 
