@@ -18,7 +18,9 @@ import java.util.Objects;
  *
  * @param description      free text: what the calibration came from; not null
  * @param pixels           the detector's pixel count it was made for; at least 2
- * @param polynomial       the pixel-to-wavelength polynomial
+ * @param polynomial       the pixel-to-wavelength polynomial; its valid range lies on the detector
+ *                         (pixels -0.5 to {@code pixels} - 0.5) and, when some line is used,
+ *                         within the pixels of the used lines (the fitted range)
  * @param rmsNm            root mean square of the used pairs' residuals, nm; NaN when not known
  * @param rmsPixels        the same in pixels; NaN when not known
  * @param reducedChiSquare the fit's chi-square per degree of freedom; NaN when not known
@@ -33,7 +35,8 @@ public record CalibrationRecord(String description, int pixels, DispersionPolyno
      *
      * @param description      free text: what the calibration came from; not null
      * @param pixels           the detector's pixel count it was made for; at least 2
-     * @param polynomial       the pixel-to-wavelength polynomial
+     * @param polynomial       the pixel-to-wavelength polynomial; its valid range on the detector and
+     *                         within the used lines' pixels
      * @param rmsNm            root mean square of the used pairs' residuals, nm; NaN when not known
      * @param rmsPixels        the same in pixels; NaN when not known
      * @param reducedChiSquare the fit's chi-square per degree of freedom; NaN when not known
@@ -52,6 +55,25 @@ public record CalibrationRecord(String description, int pixels, DispersionPolyno
         notInfinite("reduced chi-square", reducedChiSquare);
         lines = List.copyOf(lines);
         saturatedLines = List.copyOf(saturatedLines);
+        if (polynomial.lowestPixel() < -0.5 || polynomial.highestPixel() > pixels - 0.5) {
+            throw new IllegalArgumentException("the valid range, pixels " + polynomial.lowestPixel() + " to "
+                    + polynomial.highestPixel() + ", reaches beyond the detector of " + pixels + " pixels (-0.5 to "
+                    + (pixels - 0.5) + ")");
+        }
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (FittedLine line : lines) {
+            if (line.used()) {
+                lo = Math.min(lo, line.pixel());
+                hi = Math.max(hi, line.pixel());
+            }
+        }
+        if (lo <= hi && (polynomial.lowestPixel() < lo - 1e-9 * (1 + Math.abs(lo))
+                || polynomial.highestPixel() > hi + 1e-9 * (1 + Math.abs(hi)))) {
+            throw new IllegalArgumentException("the valid range, pixels " + polynomial.lowestPixel() + " to "
+                    + polynomial.highestPixel() + ", reaches beyond the used lines, pixels " + lo + " to " + hi
+                    + ": beyond them the wavelengths are extrapolated");
+        }
     }
 
     /**

@@ -489,8 +489,13 @@ final class IdentifyCommand implements Callable<Integer> {
         if (format == Table.Format.text) {
             summary.println();
         }
-        summary.println(String.format(Locale.ROOT, "%d peaks: %d matched, %d ambiguous, %d unexplained%s",
+        int notShown = 0;
+        for (int i = 0; i < positions.length; i++) {
+            notShown += result.speciesNotShown(i) ? 1 : 0;
+        }
+        summary.println(String.format(Locale.ROOT, "%d peaks: %d matched, %d ambiguous%s, %d unexplained%s",
                 read.size(), result.count(Identification.MATCHED), result.count(Identification.AMBIGUOUS),
+                notShown == 0 ? "" : " (" + notShown + " of a species not shown beyond chance)",
                 result.count(Identification.UNEXPLAINED),
                 (fit == null ? "" : shift("velocity", fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, "%.3f",
                         "km/s", fit.matches()))
@@ -521,8 +526,23 @@ final class IdentifyCommand implements Callable<Integer> {
             summary.println("note: at the " + (fit != null ? "velocity" : "offset") + " found no species shows its"
                     + " strong lines beyond chance, so the shift and the matches rest on coincidences: the true shift"
                     + " may lie outside the range searched, or the species offered may be absent");
+        } else if (fit == null && offsetFit == null && !result.someSpeciesBeyondChance() && judged(result)
+                && result.count(Identification.UNEXPLAINED) < positions.length) {
+            summary.println("note: no species shows its strong lines beyond chance, so the matches may rest on"
+                    + " coincidences: the peaks may come from a gas or impurity not offered, or lie too densely for"
+                    + " the strong lines found to be told from chance");
         }
         summary.flush();
+    }
+
+    /** @return whether some species has strong lines in the peaks' range, so that its presence was judged */
+    private static boolean judged(Identification result) {
+        for (Identification.SpeciesPresence presence : result.speciesPresence()) {
+            if (presence.strongInRange() > 0) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /**

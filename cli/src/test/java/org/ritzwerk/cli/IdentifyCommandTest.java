@@ -76,6 +76,46 @@ class IdentifyCommandTest {
         assertFalse(CliTest.run("identify", all.toString(), "--species", "H I").err().contains("intensities"));
     }
 
+    /**
+     * Peaks of a gas that was not offered (30 seeded random peaks over 400-700 nm, 0.1 nm
+     * uncertainty, and two 0.15 nm from lines of the list) against an invented list of twelve
+     * equally strong lines 20 nm apart: what the list's species shows is what chance gives, so its
+     * matches are ambiguous, the summary says why, and a note says that the matches may rest on
+     * coincidences (it was given only after a shift search; an argon lamp's peaks were reported
+     * as matched krypton and neon lines).
+     */
+    @Test
+    void peaksOfAGasNotOfferedAreNotReportedAsMatched(@TempDir Path dir) throws IOException {
+        StringBuilder list = new StringBuilder("# ritzwerk-lines 1\n# id: invented-x\n# title: t\n# source: invented\n"
+                + "# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: air\n"
+                + "species,position,intensity\n");
+        for (int k = 0; k < 12; k++) {
+            list.append("Kr I,").append(410 + 20 * k).append(",100\n");
+        }
+        Path lines = dir.resolve("lines.csv");
+        Files.writeString(lines, list, StandardCharsets.UTF_8);
+        java.util.SplittableRandom random = new java.util.SplittableRandom(12);
+        List<Double> positions = new ArrayList<>(List.of(450.15, 589.85));
+        for (int k = 0; k < 30; k++) {
+            positions.add(400 + 300 * random.nextDouble());
+        }
+        positions.sort(null);
+        StringBuilder rows = new StringBuilder("position,uncertainty\n");
+        for (double x : positions) {
+            rows.append(String.format(java.util.Locale.ROOT, "%.5f,0.1%n", x));
+        }
+        Path peaks = dir.resolve("foreign.csv");
+        Files.writeString(peaks, HEADER + rows, StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--lines", lines.toString());
+        assertEquals(0, run.code(), run.err());
+        assertFalse(java.util.regex.Pattern.compile("(?m)^\\d+ +\\d+ +\\S+ +matched ").matcher(run.out()).find(),
+                run.out());
+        assertTrue(run.out().matches("(?s).*32 peaks: 0 matched, ([1-9]) ambiguous \\(\\1 of a species not shown beyond"
+                + " chance\\), .*"), run.out());
+        assertTrue(run.out().contains("note: no species shows its strong lines beyond chance, so the matches may rest"
+                + " on coincidences"), run.out());
+    }
+
     @Test
     void findsTheVelocityFirst(@TempDir Path dir) throws IOException {
         // The same lines seen from a source receding at 60 km/s (lambda times 1 + v/c).

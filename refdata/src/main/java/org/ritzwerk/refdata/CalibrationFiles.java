@@ -50,7 +50,10 @@ import tools.jackson.databind.node.ObjectNode;
  * wavelength minus the solution at its pixel (to 1e-6 nm), so a file whose coefficients were
  * changed after the fit is refused. The members that follow from the others
  * (power_coefficients_nm, degree, lines_used, lines_rejected) are written for the reader's
- * convenience and not read back. A record written by {@link #toJson(CalibrationRecord)} reads
+ * convenience; they are not read back, but where a file gives them they must agree with what
+ * they follow from, and valid_pixels must lie on the detector and, when the file lists its
+ * lines, within the pixels of the lines used (a contradiction is refused naming the member).
+ * A missing medium is refused as missing. A record written by {@link #toJson(CalibrationRecord)} reads
  * back equal ({@link #readRecord}). Reading also checks the polynomial across the whole detector
  * with the engine's {@link DispersionSolution#checkAcross(int, double)}. Stateless and
  * thread-safe.
@@ -268,9 +271,18 @@ public final class CalibrationFiles {
             throw invalid(source, "this reader knows " + FORMAT + " version " + VERSION + ", the file says "
                     + root.get("version"));
         }
+        JsonNode mediumNode = root.get("medium");
+        if (mediumNode == null || mediumNode.isNull()) {
+            throw invalid(source, "\"medium\" is missing: give the medium of the wavelengths, \"vacuum\", \"air\" or"
+                    + " \"air(<model>)\"");
+        }
+        if (!mediumNode.isString()) {
+            throw invalid(source, "\"medium\" must be a string (\"vacuum\", \"air\" or \"air(<model>)\"), got "
+                    + TabularFiles.shown(mediumNode));
+        }
         Medium medium;
         try {
-            medium = Medium.parse(root.path("medium").asString(""));
+            medium = Medium.parse(mediumNode.asString());
         } catch (MediumException e) {
             throw invalid(source, "\"medium\": " + e.getMessage());
         }
@@ -283,6 +295,12 @@ public final class CalibrationFiles {
         double[] valid = numbers(source, root, "valid_pixels");
         if (valid.length != 2) {
             throw invalid(source, "\"valid_pixels\" must hold two numbers, the lowest and highest pixel");
+        }
+        if (valid[0] < -0.5 || valid[1] > pixels - 0.5) {
+            // a range beyond the detector would make every pixel look fitted, its extrapolated ones too
+            throw invalid(source, "\"valid_pixels\" [" + valid[0] + ", " + valid[1] + "] reaches beyond the detector"
+                    + " of \"pixels\" " + pixels + " (pixel p covers p - 0.5 to p + 0.5, so -0.5 to " + (pixels - 0.5)
+                    + "): it is the range the fitted lines cover");
         }
         double centre = number(source, root, "centre_pixel");
         double halfRange = number(source, root, "half_range");
@@ -312,6 +330,7 @@ public final class CalibrationFiles {
             throw invalid(source, e.getMessage());
         }
         checkAcrossTheDetector(source, DispersionSolution.of(polynomial), pixels);
+        checkDerivedMembers(source, root, polynomial, pixels);
         double rmsNm = optionalNumber(source, root, "rms_nm", "");
         double rmsPixels = optionalNumber(source, root, "rms_pixels", "");
         double reducedChiSquare = optionalNumber(source, root, "reduced_chi_square", "");
@@ -339,6 +358,7 @@ public final class CalibrationFiles {
                         added.residualNm(), fitted, added.pixel(), expected));
             }
         }
+        checkLinesAgree(source, root, lines, valid);
         List<CalibrationRecord.SaturatedLine> saturated = new ArrayList<>();
         for (JsonNode line : objects(source, root, "saturated_lines")) {
             String where = "\"saturated_lines\"[" + saturated.size() + "]";
@@ -354,6 +374,103 @@ public final class CalibrationFiles {
                     saturated);
         } catch (IllegalArgumentException e) {
             throw invalid(source, e.getMessage());
+        }
+    }
+
+    /**
+     * The members written for the reader's convenience must agree with those they follow from
+     * when a file gives them: {@code degree} is the number of {@code coefficients_nm} less one,
+     * and {@code power_coefficients_nm} give the same wavelengths as {@code coefficients_nm} at
+     * every pixel (checked at evenly spaced pixels across the detector, at least twice as many as
+     * coefficients, to max(1e-6 nm, 1e-9 of the wavelength) plus rounding: 1e-12 of the larger of
+     * the power terms' magnitudes and those of the binomial expansion that gives the power form,
+     * which is badly conditioned). A file that contradicts
+     * itself is refused, naming the member, since which of the two a reader believes is a guess.
+     */
+    private static void checkDerivedMembers(String source, JsonNode root, DispersionPolynomial polynomial,
+            int pixels) {
+        JsonNode degree = root.get("degree");
+        if (degree != null && !degree.isNull()) {
+            if (!degree.isIntegralNumber() || !degree.canConvertToInt() || degree.asInt() != polynomial.degree()) {
+                throw invalid(source, "\"degree\" is " + TabularFiles.shown(degree) + ", but \"coefficients_nm\" holds "
+                        + polynomial.coefficients().length + " coefficients, a polynomial of degree "
+                        + polynomial.degree() + ": the file contradicts itself");
+            }
+        }
+        JsonNode power = root.get("power_coefficients_nm");
+        if (power == null || power.isNull()) {
+            return;
+        }
+        double[] b = numbers(source, power, "power_coefficients_nm");
+        DispersionSolution solution = DispersionSolution.of(polynomial);
+        int points = Math.max(8, 2 * Math.max(b.length, polynomial.coefficients().length));
+        for (int k = 0; k < points; k++) {
+            double p = (pixels - 1) * (double) k / (points - 1);
+            double sum = 0;
+            double magnitude = 0;
+            double term = 1;
+            for (double c : b) {
+                sum += c * term;
+                magnitude += Math.abs(c * term);
+                term *= p;
+            }
+            // the expansion's own terms, sum |a_j| ((|p| + |c|) / h)^j, bound its rounding too
+            double reach = (Math.abs(p) + Math.abs(polynomial.centrePixel())) / polynomial.halfRange();
+            term = 1;
+            double expansion = 0;
+            for (double a : polynomial.coefficients()) {
+                expansion += Math.abs(a) * term;
+                term *= reach;
+            }
+            magnitude = Math.max(magnitude, expansion);
+            double expected = solution.wavelengthAt(p);
+            double allowed = Math.max(1e-6, 1e-9 * Math.abs(expected)) + 1e-12 * magnitude;
+            if (!(Math.abs(sum - expected) <= allowed)) {
+                throw invalid(source, String.format(java.util.Locale.ROOT, "\"power_coefficients_nm\" give %.6f nm at"
+                        + " pixel %s, but \"coefficients_nm\" give %.6f nm there: the file contradicts itself (the"
+                        + " power form follows from the scaled one; leave it out or write it from the same"
+                        + " polynomial)", sum, pixel(p), expected));
+            }
+        }
+    }
+
+    /**
+     * When the file lists its fitted lines: {@code lines_used} and {@code lines_rejected}, where
+     * given, are their counts, and {@code valid_pixels} reaches no further than the pixels of the
+     * lines used (the fitted range; beyond it the wavelengths are extrapolated and must not look
+     * valid).
+     */
+    private static void checkLinesAgree(String source, JsonNode root, List<CalibrationRecord.FittedLine> lines,
+            double[] valid) {
+        JsonNode listed = root.get("lines");
+        if (listed == null || listed.isNull()) {
+            return;
+        }
+        int used = 0;
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (CalibrationRecord.FittedLine line : lines) {
+            if (line.used()) {
+                used++;
+                lo = Math.min(lo, line.pixel());
+                hi = Math.max(hi, line.pixel());
+            }
+        }
+        checkCount(source, root, "lines_used", used, "used");
+        checkCount(source, root, "lines_rejected", lines.size() - used, "not used");
+        if (used > 0 && (valid[0] < lo - 1e-9 * (1 + Math.abs(lo)) || valid[1] > hi + 1e-9 * (1 + Math.abs(hi)))) {
+            throw invalid(source, "\"valid_pixels\" [" + valid[0] + ", " + valid[1] + "] reaches beyond the lines"
+                    + " used, which lie from pixel " + lo + " to " + hi + ": the valid range is the fitted one (beyond"
+                    + " it the wavelengths are extrapolated)");
+        }
+    }
+
+    private static void checkCount(String source, JsonNode root, String name, int count, String which) {
+        JsonNode v = root.get(name);
+        if (v != null && !v.isNull()
+                && (!v.isIntegralNumber() || !v.canConvertToInt() || v.asInt() != count)) {
+            throw invalid(source, "\"" + name + "\" is " + TabularFiles.shown(v) + ", but " + count
+                    + " of \"lines\" are " + which + ": the file contradicts itself");
         }
     }
 

@@ -23,7 +23,10 @@ import tools.jackson.databind.json.JsonMapper;
  * row per pixel, in pixel order (the first row is pixel 0). Columns: {@code counts} (required),
  * {@code counts_sigma} (the standard uncertainty of each count, optional), {@code pixel}
  * (optional; when given it must be 0, 1, 2, ...), {@code wavelength_nm} and
- * {@code expected_counts}, {@code wavelength_sigma_nm} (optional, kept for reference).
+ * {@code expected_counts}, {@code wavelength_sigma_nm} (optional, for reference; empty where
+ * not known, as {@link #withWavelengths} writes it for a solution without a covariance), and
+ * {@code extrapolated} (optional, 0 or 1: whether the pixel's wavelength was extrapolated beyond
+ * the calibration's fitted range, as {@link #withWavelengths} writes it; checked, not kept).
  * Unknown columns are an error, so a misspelt one is not lost.
  *
  * <p>JSON: one object with {@code "format": "ritzwerk-spectrum"}, {@code "version": 1}, the
@@ -42,7 +45,7 @@ public final class SpectrumFiles {
     public static final int VERSION = 1;
 
     private static final List<String> COLUMNS = List.of("pixel", "wavelength_nm", "expected_counts", "counts",
-            "counts_sigma", "wavelength_sigma_nm");
+            "counts_sigma", "wavelength_sigma_nm", "extrapolated");
     private static final int MAX_PROBLEMS = 50;
 
     private SpectrumFiles() {
@@ -145,7 +148,11 @@ public final class SpectrumFiles {
     /**
      * A spectrum with the wavelengths of a dispersion solution, as text: a {@code ritzwerk-spectrum 1}
      * CSV with columns {@code pixel,wavelength_nm,wavelength_sigma_nm,counts} (and
-     * {@code counts_sigma} when the spectrum has them). The wavelength of pixel p is the solution at
+     * {@code counts_sigma} when the spectrum has them), then {@code extrapolated}: 1 where pixel p
+     * lies outside the solution's fitted range ({@link DispersionSolution#isWithinFittedRange}),
+     * so that its wavelength is extrapolated, else 0 (the last column, so that a reader taking the
+     * columns by position still finds the others where they were; a {@code # valid-pixels} header
+     * line says the same for readers of the comments). The wavelength of pixel p is the solution at
      * the pixel's centre p; its standard uncertainty is left empty where the solution has none.
      *
      * @param spectrum     the spectrum (counts per pixel)
@@ -169,7 +176,7 @@ public final class SpectrumFiles {
                     solution.highestPixel()));
         }
         text.append("pixel,wavelength_nm,wavelength_sigma_nm,counts").append(spectrum.sigmas() != null
-                ? ",counts_sigma" : "").append('\n');
+                ? ",counts_sigma" : "").append(",extrapolated\n");
         double[] counts = spectrum.counts();
         double[] countSigmas = spectrum.sigmas();
         for (int p = 0; p < n; p++) {
@@ -181,7 +188,7 @@ public final class SpectrumFiles {
             if (countSigmas != null) {
                 text.append(',').append(countSigmas[p]);
             }
-            text.append('\n');
+            text.append(solution.isWithinFittedRange(p) ? ",0\n" : ",1\n");
         }
         return text.toString();
     }
@@ -358,10 +365,14 @@ public final class SpectrumFiles {
                 double v = parse(cell);
                 String name = COLUMNS.get(k);
                 String reason = null;
-                if (Double.isNaN(v)) {
+                // an empty wavelength_sigma_nm is "not given": withWavelengths leaves it empty where
+                // the solution has no uncertainty
+                if (Double.isNaN(v) && !(cell.isEmpty() && name.equals("wavelength_sigma_nm"))) {
                     reason = name + " must be a finite number, got '" + cell + "'";
                 } else if (name.equals("counts_sigma") && !(v > 0)) {
                     reason = "counts_sigma must be positive, got " + cell;
+                } else if (name.equals("extrapolated") && v != 0 && v != 1) {
+                    reason = "extrapolated must be 0 or 1, got " + cell;
                 } else if (name.equals("pixel") && v != pixel) {
                     reason = "pixel must count up from 0 in row order: expected " + pixel + ", got " + cell;
                 }

@@ -11,6 +11,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.ritzwerk.data.CalibrationRecord;
 import org.ritzwerk.engine.calibrate.DispersionFit;
 import org.ritzwerk.engine.calibrate.DispersionSolution;
 import org.ritzwerk.medium.Medium;
@@ -97,5 +98,62 @@ class CalibrationFilesTest {
         DataFileException indefinite = assertThrows(DataFileException.class,
                 () -> CalibrationFiles.read(fixture("calibration-indefinite-covariance.json")));
         assertTrue(indefinite.getMessage().contains("not positive semidefinite"), indefinite.getMessage());
+    }
+
+    /**
+     * A file that contradicts itself, or claims a fitted range its lines do not cover, is refused
+     * naming the member (invented files; the straight line 495 + (5 / 49.5) p nm on 100 pixels):
+     * a valid range beyond the detector was accepted and made every pixel of an applied spectrum
+     * look fitted; power coefficients and a degree that disagreed with the coefficients were
+     * silently ignored; a missing medium was reported as "unknown medium ''".
+     */
+    @Test
+    void contradictionsAndRangesBeyondTheFitAreRefusedNamingTheMember() throws URISyntaxException {
+        assertRefused("calibration-valid-pixels-beyond-detector.json",
+                "\"valid_pixels\" [-10.0, 150.0] reaches beyond the detector of \"pixels\" 100");
+        assertRefused("calibration-valid-pixels-beyond-lines.json",
+                "\"valid_pixels\" [0.0, 99.0] reaches beyond the lines used, which lie from pixel 19.8 to 79.2");
+        assertRefused("calibration-power-coefficients-contradict.json",
+                "\"power_coefficients_nm\" give 1.000000 nm at pixel 0, but \"coefficients_nm\" give 495.000000 nm");
+        assertRefused("calibration-degree-contradicts.json",
+                "\"degree\" is 3, but \"coefficients_nm\" holds 2 coefficients, a polynomial of degree 1");
+        assertRefused("calibration-lines-used-contradicts-lines.json",
+                "\"lines_used\" is 4, but 3 of \"lines\" are used");
+        assertRefused("calibration-missing-medium.json", "\"medium\" is missing");
+        // the same members, agreeing with the rest, are read (and the degree file's power form is right)
+        CalibrationRecord agreeing = CalibrationFiles.readRecord(fixture("calibration-consistent-with-lines.json"));
+        assertEquals(3, agreeing.linesUsed());
+        assertEquals(19.8, agreeing.polynomial().lowestPixel());
+    }
+
+    private static void assertRefused(String fixture, String expected) throws URISyntaxException {
+        Path file = fixture(fixture);
+        DataFileException e = assertThrows(DataFileException.class, () -> CalibrationFiles.read(file));
+        assertTrue(e.getMessage().contains(expected), e.getMessage());
+    }
+
+    /**
+     * Power coefficients written from the same polynomial pass the check at every degree the fit
+     * allows, though the power form is badly conditioned: a written file reads back.
+     */
+    @Test
+    void writtenFilesOfHighDegreeReadBack(@TempDir Path dir) throws IOException {
+        double[] pixel = new double[40];
+        double[] nm = new double[40];
+        double[] sigma = new double[40];
+        for (int i = 0; i < pixel.length; i++) {
+            pixel[i] = 5 + 100 * i;
+            double x = pixel[i] / 4096;
+            nm[i] = 350 + 550 * x + 20 * x * x - 8 * x * x * x + 3 * Math.pow(x, 4) - Math.pow(x, 5);
+            sigma[i] = 0.01;
+        }
+        DispersionSolution quintic = DispersionFit.ofDegree(5).fit(pixel, sigma, nm, null, Medium.vacuum());
+        List<String> labels = new java.util.ArrayList<>();
+        for (int i = 0; i < pixel.length; i++) {
+            labels.add("line " + i);
+        }
+        Path file = dir.resolve("quintic.json");
+        CalibrationFiles.write(file, quintic, 4096, "invented quintic", labels);
+        assertEquals(quintic.wavelengthAt(3000.0), CalibrationFiles.read(file).solution().wavelengthAt(3000.0), 1e-9);
     }
 }

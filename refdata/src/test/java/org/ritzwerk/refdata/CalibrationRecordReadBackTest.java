@@ -88,10 +88,12 @@ class CalibrationRecordReadBackTest {
                 }
             }
         }
-        double lowest = r.nextDouble() * pixels / 3;
-        double highest = lowest + 1e-6 + r.nextDouble() * pixels;
-        DispersionPolynomial polynomial = new DispersionPolynomial(Medium.parse(MEDIA[r.nextInt(MEDIA.length)]),
-                centre, halfRange, a, covariance, lowest, highest);
+        // The valid range lies on the detector (-0.5 to pixels - 0.5), and within the used lines' pixels below.
+        double lowest = -0.5 + r.nextDouble() * pixels / 3;
+        double highest = lowest + 1e-6 + r.nextDouble() * (pixels - 0.5 - lowest - 1e-6);
+        Medium medium = Medium.parse(MEDIA[r.nextInt(MEDIA.length)]);
+        DispersionPolynomial polynomial = new DispersionPolynomial(medium, centre, halfRange, a, covariance, lowest,
+                highest);
         if (r.nextInt(5) == 0) {
             return CalibrationRecord.of(anyText(r, 0, 30), pixels, polynomial);
         }
@@ -101,12 +103,34 @@ class CalibrationRecordReadBackTest {
         // minus the solution at the pixel); the other members are arbitrary.
         org.ritzwerk.engine.calibrate.DispersionSolution solution =
                 org.ritzwerk.engine.calibrate.DispersionSolution.of(polynomial);
+        double usedLo = Double.POSITIVE_INFINITY;
+        double usedHi = Double.NEGATIVE_INFINITY;
         for (int i = 0; i < n; i++) {
-            double pixel = r.nextDouble() * pixels;
+            double pixel = -0.5 + r.nextDouble() * pixels;
             double fitted = solution.wavelengthAt(pixel);
             double wavelength = fitted + (r.nextDouble() - 0.5) * 1e-2;
+            boolean used = r.nextInt(5) != 0;
             lines.add(new CalibrationRecord.FittedLine(pixel, wavelength, anyPositiveOrNaN(r), wavelength - fitted,
-                    anyDouble(r), r.nextInt(5) != 0, anyText(r, 0, 30), r.nextInt(4) == 0 ? anyText(r, 0, 10) : ""));
+                    anyDouble(r), used, anyText(r, 0, 30), r.nextInt(4) == 0 ? anyText(r, 0, 10) : ""));
+            if (used) {
+                usedLo = Math.min(usedLo, pixel);
+                usedHi = Math.max(usedHi, pixel);
+            }
+        }
+        if (usedLo < usedHi) {
+            // a fit's valid range is its used lines' span (the reader refuses one reaching beyond it)
+            double span = usedHi - usedLo;
+            polynomial = new DispersionPolynomial(medium, centre, halfRange, a, covariance,
+                    usedLo + r.nextDouble() * span / 3, usedHi - r.nextDouble() * span / 3);
+        } else if (usedLo == usedHi) {
+            // one used line spans no range: a fit never has one alone, so it is left out of the fit here
+            for (int i = 0; i < lines.size(); i++) {
+                CalibrationRecord.FittedLine line = lines.get(i);
+                if (line.used()) {
+                    lines.set(i, new CalibrationRecord.FittedLine(line.pixel(), line.wavelengthNm(), line.sigmaNm(),
+                            line.residualNm(), line.residualPixels(), false, line.line(), line.flag()));
+                }
+            }
         }
         List<CalibrationRecord.SaturatedLine> saturated = new ArrayList<>();
         int m = r.nextInt(3) == 0 ? 1 + r.nextInt(4) : 0;

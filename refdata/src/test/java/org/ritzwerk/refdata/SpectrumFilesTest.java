@@ -130,4 +130,32 @@ class SpectrumFilesTest {
                 () -> SpectrumFiles.read(Path.of("no-such-spectrum.csv")));
         assertEquals(DataFileException.UNREADABLE, e.code());
     }
+    /**
+     * An applied calibration marks each extrapolated pixel in a column of its own, so a CSV reader
+     * that skips comments (and the {@code # valid-pixels} line) still knows them; the format's
+     * reader takes the column, and refuses a value other than 0 or 1. Invented solution: 500 +
+     * 0.1 (p - 4.5) nm over 10 pixels, fitted over pixels 2 to 7.
+     */
+    @Test
+    void appliedWavelengthsMarkTheExtrapolatedPixels() {
+        org.ritzwerk.engine.calibrate.DispersionSolution solution = org.ritzwerk.engine.calibrate.DispersionSolution.of(
+                4.5, 1, new double[] {500, 0.1}, null, 2, 7, org.ritzwerk.medium.Medium.air());
+        double[] counts = {1, 2, 3, 4, 5, 6, 7, 8, 9, 10};
+        String text = SpectrumFiles.withWavelengths(new SpectrumFiles.Spectrum("s.csv", counts, null, null,
+                java.util.Map.of()), solution, "c.json");
+        assertTrue(text.contains("# valid-pixels: 2.0 to 7.0"), text);
+        assertTrue(text.contains("\npixel,wavelength_nm,wavelength_sigma_nm,counts,extrapolated\n"), text);
+        String[] rows = text.substring(text.indexOf(",extrapolated\n") + 14).split("\n");
+        assertEquals(10, rows.length);
+        for (int p = 0; p < 10; p++) {
+            String flag = rows[p].substring(rows[p].lastIndexOf(',') + 1);
+            assertEquals(p >= 2 && p <= 7 ? "0" : "1", flag, rows[p]);
+        }
+        SpectrumFiles.Spectrum back = SpectrumFiles.read(text, "applied.csv");
+        assertArrayEquals(counts, back.counts());
+        assertEquals(500 + 0.1 * (9 - 4.5), back.wavelengths()[9], 1e-6);
+        DataFileException bad = assertThrows(DataFileException.class, () -> SpectrumFiles.read(
+                "pixel,counts,extrapolated\n0,5,0\n1,6,2\n", "bad.csv"));
+        assertTrue(bad.getMessage().contains("extrapolated must be 0 or 1, got 2"), bad.getMessage());
+    }
 }

@@ -24,7 +24,9 @@ import org.ritzwerk.data.CalibrationRecord;
  * The command line's {@code calibrate} runs exactly this; the defaults here are its defaults.
  *
  * <p>Configured with {@code withX} methods that return new solvers; immutable, reusable and
- * thread-safe. The same problem gives the same result bit for bit (nothing random).
+ * thread-safe: one instance may be shared by any number of threads, and calibrations run
+ * concurrently give what they give run one after another, bit for bit (CalibratorConcurrencyTest).
+ * The same problem gives the same result bit for bit (nothing random).
  */
 public final class Calibrator {
 

@@ -21,10 +21,11 @@ public final class Identification {
     public static final byte MATCHED = 1;
     /**
      * Status: matched, but an assignment in which the peak explains another line has posterior
-     * odds within the identifier's threshold (see {@link Identifier}); or the line is a weak one
-     * of a species none of whose strong lines in the peaks' range explains a peak, so that a line
-     * from outside the catalogue is as likely an explanation ({@link #speciesPresence} counts
-     * those strong lines).
+     * odds within the identifier's threshold (see {@link Identifier}); or the line's species does
+     * not show its strong lines in the peaks' range beyond chance ({@link #speciesNotShown}: none
+     * of them explains a peak, or no more than chance gives and fewer than a present species
+     * would show), so that a line from outside the catalogue is as likely an explanation
+     * ({@link #speciesPresence} counts those strong lines).
      */
     public static final byte AMBIGUOUS = 2;
 
@@ -32,8 +33,11 @@ public final class Identification {
     private final LineCatalog lines;
     /** The line plus one (0 for none), negative when ambiguous by the posterior odds. */
     private final int[] linePlusOne;
-    /** Per peak, whether its line is a weak one of a species showing none of its strong lines; null when none is. */
-    private final boolean[] doubted;
+    /**
+     * The species' presence and the peaks it casts doubt on, worked out on first request (status,
+     * presence) and then kept: a shift search's many trial identifications never need them.
+     */
+    private volatile Presence presence;
     private final boolean[] used;
     private final int greedyComponents;
     private final double strongLine;
@@ -55,53 +59,12 @@ public final class Identification {
                 0, 0);
     }
 
-    /**
-     * The peaks matched to a line of a species that has strong lines in the peaks' range (as
-     * {@link #speciesPresence} counts them) but none of them explaining a peak: a weak line of a
-     * species that shows none of its strong ones is no better an explanation than a line the
-     * catalogue does not hold (a foreign gas, an impurity). {@link #status} calls them ambiguous.
-     *
-     * @return per peak whether it is such a match, or null when none is
-     */
-    private static boolean[] doubtSpeciesWithoutStrongLines(PeakList peaks, LineCatalog lines, int[] linePlusOne,
-            boolean[] used, double strongLine) {
-        double lo = peaks.shortestWavelength();
-        double hi = peaks.longestWavelength();
-        int count = lines.speciesList().size();
-        boolean[] strong = new boolean[count];
-        boolean[] found = new boolean[count];
-        int withStrongFound = 0;
-        for (int j : lines.linesAtLeast(strongLine)) {
-            double w = lines.wavelength(j);
-            int s = lines.speciesIndex(j);
-            if (!found[s] && (w >= lo && w <= hi || used[j])) {
-                strong[s] = true;
-                if (used[j]) {
-                    found[s] = true;
-                    if (++withStrongFound == count) {
-                        return null; // every species shows a strong line: nothing to doubt (the usual case)
-                    }
-                }
-            }
-        }
-        boolean[] doubted = null;
-        for (int i = 0; i < linePlusOne.length; i++) {
-            int s = linePlusOne[i] > 0 ? lines.speciesIndex(linePlusOne[i] - 1) : -1;
-            if (s >= 0 && strong[s] && !found[s]) {
-                doubted = doubted == null ? new boolean[linePlusOne.length] : doubted;
-                doubted[i] = true;
-            }
-        }
-        return doubted;
-    }
-
     private Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
             int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
             Identifier.IntensityTerm intensityTerm, double searchRelativeSpan, double searchSpan) {
         this.peaks = peaks;
         this.lines = lines;
         this.linePlusOne = linePlusOne;
-        this.doubted = doubtSpeciesWithoutStrongLines(peaks, lines, linePlusOne, used, strongLine);
         this.used = used;
         this.greedyComponents = greedyComponents;
         this.strongLine = strongLine;
@@ -182,7 +145,39 @@ public final class Identification {
      */
     public int status(int i) {
         int v = linePlusOne[i];
-        return v == 0 ? UNEXPLAINED : v > 0 && (doubted == null || !doubted[i]) ? MATCHED : AMBIGUOUS;
+        return v == 0 ? UNEXPLAINED : v > 0 && !presence().notShown[lines.speciesIndex(v - 1)] ? MATCHED : AMBIGUOUS;
+    }
+
+    /**
+     * Whether the peak's line belongs to a species that does not show its strong lines in the
+     * peaks' range beyond chance, which makes a matched peak {@link #AMBIGUOUS} whatever its odds
+     * against the other lines: the catalogue holds only the species offered, so a peak from
+     * anything else (a gas not offered, an impurity) takes the nearest line it finds, and a line
+     * of a species that is not shown to be there is no better an explanation than a line the
+     * catalogue lacks. A species is not shown when it has strong lines in range
+     * ({@link SpeciesPresence#strongInRange()} n above 0) and either none of them explains a
+     * peak, or its presence is 0 (chance gives what was found) and it shows fewer of them than a
+     * present species would: with c the strong lines in range that have some peak within the
+     * tolerance window of the chance model (whatever line that peak was assigned to), the share
+     * beyond chance (c - mu) / (n - mu) at the one-sided 99 % upper bound of c,
+     * (c - mu + 2.326 sqrt(v)) / (n - mu) (mu and v as in {@link #speciesPresence}; the
+     * counterpart of its lower bound), stays below {@value #PRESENT_SHARE}. A species with no
+     * strong line in range is not judged.
+     *
+     * <p>c, not the lines matched, is what the chance model predicts: where peaks lie densely the
+     * species' lines compete for them, and a present species is matched to fewer strong lines than
+     * chance alone would put a peak near. There presence is 0 for species that are there too,
+     * but c is high and their matches keep their status: the rule flags a species where the data
+     * speak against it, not merely where they cannot confirm it (on seeded crowded scenes,
+     * flagging on presence 0 alone turned 9 in 10 unflagged matches ambiguous, and bounding the
+     * lines matched instead of c still 1 in 40).
+     *
+     * @param i peak index
+     * @return true when the peak has a line and that line's species is not shown
+     */
+    public boolean speciesNotShown(int i) {
+        int j = line(i);
+        return j >= 0 && presence().notShown[lines.speciesIndex(j)];
     }
 
     /**
@@ -452,14 +447,41 @@ public final class Identification {
      * the bound is loose (one strong line found where chance expects 0.01 or 0.001 gives 0.77
      * or 0.93).
      *
-     * @return per species of the catalog, in {@link LineCatalog#speciesList()} order
+     * @return per species of the catalog, in {@link LineCatalog#speciesList()} order (unmodifiable)
      */
     public List<SpeciesPresence> speciesPresence() {
+        return presence().species();
+    }
+
+    /**
+     * A species that is there shows at least this share of its strong lines in the peaks' range
+     * ({@link #speciesNotShown}). A judgement of this project, not a derived figure: strong lines
+     * are those a present species must show, and one half leaves room for an instrument's
+     * response and for excitation conditions unlike those of the line list's strengths.
+     */
+    public static final double PRESENT_SHARE = 0.5;
+
+    /** Each species' presence, and per species whether it is not shown ({@link #speciesNotShown}). */
+    private record Presence(List<SpeciesPresence> species, boolean[] notShown) {
+    }
+
+    /** @return the presence, worked out once (a race only works it out twice, to the same values) */
+    private Presence presence() {
+        Presence known = presence;
+        if (known == null) {
+            known = weighPresence();
+            presence = known;
+        }
+        return known;
+    }
+
+    private Presence weighPresence() {
         int count = lines.speciesList().size();
         int[] matched = new int[count];
         double[] matchedByChance = new double[count];
         int[] strong = new int[count];
         int[] strongMatched = new int[count];
+        int[] strongCovered = new int[count];
         double[] strongByChance = new double[count];
         double[] strongVariance = new double[count];
         // Each species' strong-line rates in catalogue order (unboxed; lengths in strong[]), and
@@ -490,6 +512,7 @@ public final class Identification {
             if ((w >= lo && w <= hi || used[j]) && lines.strength(j) >= strongLine) {
                 strong[s]++;
                 strongMatched[s] += used[j] ? 1 : 0;
+                strongCovered[s] += used[j] || peakWithin(sorted, j, h) ? 1 : 0;
                 strongByChance[s] += p;
                 strongVariance[s] += p * (1 - p);
                 strongRates[s] = grown(strongRates[s], strong[s] - 1);
@@ -497,6 +520,7 @@ public final class Identification {
             }
         }
         List<SpeciesPresence> presence = new ArrayList<>();
+        boolean[] notShown = new boolean[count];
         for (int s = 0; s < count; s++) {
             int n = strong[s];
             int k = strongMatched[s];
@@ -519,11 +543,33 @@ public final class Identification {
                 share = n - mu > 1e-12 && !(chance > 0.01)
                         ? (k - mu - Z_99 * Math.sqrt(strongVariance[s])) / (n - mu) : 0;
                 share = Math.max(0, Math.min(1, share));
+                // Not shown: none of its strong lines found, or no more than chance gives and, at
+                // the upper bound of the lines with a peak near them, fewer than a present species shows.
+                notShown[s] = k == 0 || share == 0 && n - mu > 1e-12
+                        && (strongCovered[s] - mu + Z_99 * Math.sqrt(strongVariance[s])) / (n - mu) < PRESENT_SHARE;
             }
             presence.add(new SpeciesPresence(lines.speciesList().get(s), matched[s], matchedByChance[s], n, k, mu,
                     chance, share));
         }
-        return presence;
+        return new Presence(List.copyOf(presence), notShown);
+    }
+
+    /**
+     * @param sorted the peaks' vacuum wavelengths, ascending, metres
+     * @param j      a line
+     * @param h      its tolerance half-width as the chance model takes it, metres
+     * @return whether some peak lies within h of one of the line's positions
+     *         ({@link LineCatalog#nearestPosition}), whatever line that peak was assigned to
+     */
+    private boolean peakWithin(double[] sorted, int j, double h) {
+        double w = lines.wavelength(j);
+        for (int i = Identifier.lowerBound(sorted, w - h - lines.partsBelow());
+                i < sorted.length && sorted[i] <= w + h + lines.partsAbove(); i++) {
+            if (Math.abs(sorted[i] - lines.nearestPosition(j, sorted[i], h)) <= h) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /** After a shift search the best of about T independent shifts was kept: 1 - (1 - P)^T (look-elsewhere). */
@@ -543,7 +589,9 @@ public final class Identification {
      * @return whether some species shows its strong lines beyond chance ({@link #speciesPresence}
      *         above 0). After a velocity or offset search, false means the shift kept is no better
      *         than chance: the true one may lie outside the range searched, or no species offered
-     *         is there.
+     *         is there. Without a search, false means the matches may rest on coincidences: the
+     *         peaks may come from a gas or impurity not offered, or lie too densely for the
+     *         strong lines found to be told from chance.
      */
     public boolean someSpeciesBeyondChance() {
         for (SpeciesPresence presence : speciesPresence()) {

@@ -67,9 +67,11 @@ import java.util.Objects;
  * least the peak's own cost difference). A peak that has no other candidate is never
  * ambiguous; which of several peaks a line belongs to is not ambiguity (the others are left
  * unexplained). The catalogue holds only the species offered, so a peak from anything else (a
- * foreign gas, an impurity) takes the nearest weak line it finds: a peak matched to a line of a
- * species that has strong lines in the peaks' range but shows none of them is flagged ambiguous
- * too ({@link Identification#AMBIGUOUS}). Foreign peaks that land near a line of a species that
+ * foreign gas, an impurity) takes the nearest line it finds: a peak matched to a line of a
+ * species that has strong lines in the peaks' range but does not show them beyond chance (none
+ * found, or no more than chance gives and fewer than a present species would show;
+ * {@link Identification#speciesNotShown}) is flagged ambiguous too
+ * ({@link Identification#AMBIGUOUS}). Foreign peaks that land near a line of a species that
  * is present are not caught: the unflagged error rate grows with their share.
  *
  * <p>Immutable and thread-safe; no object is made per peak or candidate.
