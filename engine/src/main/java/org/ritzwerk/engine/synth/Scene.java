@@ -40,10 +40,15 @@ import org.ritzwerk.quantity.Unit;
  * <ul>
  * <li>One-electron emitters ({@link Builder#hydrogenLike}): every n -&gt; n' multiplet whose
  * (shifted) position falls in or near the grid, for upper n up to {@link Builder#nMax}. Photon
- * rate of a line = N g_u A exp(-(E_u - E_1) / kT) / U, U the partition function cut off at
- * nMax (Boltzmann's law, optically thin). N is the emitter's abundance times, when an electron
- * density is given and the element is hydrogen or helium, its stage's Saha fraction
- * ({@link IonisationBalance}); for other elements N is the abundance of that ion itself.</li>
+ * rate of a line = N g_u A exp(-(E_u - E_1) / kT) / U (Boltzmann's law, optically thin). U does
+ * not depend on nMax (which only chooses the lines drawn): with an electron density it is summed
+ * over the levels still bound below the ionisation limit lowered by Debye screening
+ * ({@link IonisationBalance#boundPartition}), and lines from levels above that limit are not
+ * drawn (a note says so); without one it is the Planck-Larkin partition function
+ * ({@link IonisationBalance#planckLarkinPartition}), which needs no cutoff. N is the emitter's
+ * abundance times, when an electron density is given and the element is hydrogen or helium, its
+ * stage's Saha fraction with the lowered ionisation energy ({@link IonisationBalance}); for other
+ * elements N is the abundance of that ion itself.</li>
  * <li>Line lists ({@link Builder#lineList}): positions and photon rates as given, or a
  * {@link LineList}'s relative intensities (a lamp set, say) scaled to the strongest ion line;
  * broadened and shifted like the rest.</li>
@@ -53,7 +58,8 @@ import org.ritzwerk.quantity.Unit;
  * Einstein A, populated by Boltzmann's law over the list's levels; with an electron density,
  * He I's abundance is weighted by its Saha fraction in the helium balance, as He II's is, with
  * the list's Boltzmann sum as He I's partition function in both steps (and in He II's fraction),
- * cut off at the list's last level.</li>
+ * over the list's levels below the ionisation limit lowered by Debye screening (lines from
+ * levels above it are not drawn).</li>
  * <li>Widths: Doppler (Gaussian, from the temperature and the emitter's mass), the
  * instrument's Gaussian response, and a Lorentzian that is the sum of a collisional FWHM given
  * by the caller, natural widths when asked ({@link Builder#naturalWidths}: each shell's total
@@ -697,7 +703,10 @@ public final class Scene {
         }
 
         /**
-         * @param n highest upper n and the partition functions' cutoff, 2 .. {@link HydrogenLikeLines#MAX_N}
+         * @param n highest upper n of the one-electron lines drawn, 2 .. {@link HydrogenLikeLines#MAX_N}
+         *          (the partition functions do not depend on it; with an electron density no line
+         *          is drawn from above the lowered ionisation limit, whatever n); also the highest n
+         *          of the alkali atoms' levels and lines
          * @return this builder
          */
         public Builder nMax(int n) {
@@ -874,10 +883,12 @@ public final class Scene {
                         + " cover those); H-gamma and higher and the He II lines are drawn without");
                 // Inglis and Teller (1939): log10 Ne[cm^-3] = 23.26 - 7.5 log10 n_max (from memory).
                 double merged = Math.pow(10, (23.26 - Math.log10(electronDensity * 1e-6)) / 7.5);
-                if (nMax > merged && ions.stream().anyMatch(ion -> ion.model().nucleus().z() == 1)) {
+                int drawnH = ions.stream().filter(ion -> ion.model().nucleus().z() == 1)
+                        .mapToInt(ion -> drawnN(ion.model())).max().orElse(0);
+                if (drawnH > merged) {
                     notes.add(String.format(java.util.Locale.ROOT, "at this density the Balmer lines above n = %.0f"
                             + " merge into a continuum (Inglis-Teller); they are drawn as separate lines up to"
-                            + " nMax = %d", Math.floor(merged), nMax));
+                            + " n = %d", Math.floor(merged), drawnH));
                 }
             }
             Collected out = new Collected(lo, hi);
@@ -980,6 +991,8 @@ public final class Scene {
             double lowest = lowest(levels);
             double partition = levelPartition(levels);
             double number = e.abundance() * levelStageFraction(e, partition, notes);
+            double limit = boundLimitPerCm(levels.species());
+            int dissolved = 0;
             double beta = Math.abs(velocity) / PhysicalConstants.C;
             double loNm = grid.lowest() * 0.98 * (1 - beta);
             double hiNm = grid.highest() * 1.02 * (1 + beta);
@@ -994,11 +1007,20 @@ public final class Scene {
                     continue;
                 }
                 int u = lines.upper(i);
+                if (levels.energyPerCm(u) - lowest >= limit) {
+                    dissolved++;
+                    continue;
+                }
                 nm[n] = vacuumNm;
                 photons[n] = number * (levels.designation(u).twoJ() + 1) * lines.einsteinA(i).getAsDouble()
                         * Math.exp(-(levels.energyPerCm(u) - lowest) * hcPerCmOverKt) / partition;
                 labels[n] = prefix + levels.label(u) + " - " + levels.label(lines.lower(i));
                 n++;
+            }
+            if (dissolved > 0) {
+                notes.add(String.format(java.util.Locale.ROOT, "%s: %d line(s) from levels above the ionisation"
+                        + " limit lowered by the plasma (Debye screening, to %.1f cm^-1) are not drawn",
+                        levels.species().notation(), dissolved, limit));
             }
             String[] kept = Arrays.copyOf(labels, n);
             return new ListEmitter(levels.species().notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n),
@@ -1015,17 +1037,34 @@ public final class Scene {
         }
 
         /**
+         * The energy above the lowest level, cm^-1, from which a level list's levels have merged
+         * into the continuum: for neutral helium with an electron density, its ionisation energy
+         * lowered by Debye screening ({@link IonisationBalance#ionisationLowering}, z = 1);
+         * otherwise no limit (infinity), as no ionisation energy is known for the list.
+         */
+        private double boundLimitPerCm(Species species) {
+            if (Double.isNaN(electronDensity) || species.z() != 2 || species.charge() != 0) {
+                return Double.POSITIVE_INFINITY;
+            }
+            return (IonisationBalance.HELIUM_I_IONISATION_ENERGY
+                    - IonisationBalance.ionisationLowering(temperature, electronDensity, 1))
+                    / (PhysicalConstants.H * PhysicalConstants.C * 100);
+        }
+
+        /**
          * The partition function of a level list at the scene's temperature: the sum of
          * (2J + 1) exp(-(E - E_lowest) / kT) over the levels whose J is known (Boltzmann's law,
-         * common practice), cut off at the list's last level.
+         * common practice), up to the list's last level and, for He I with an electron density,
+         * below the lowered ionisation limit ({@link #boundLimitPerCm}).
          */
         private double levelPartition(RitzLevels levels) {
             double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100
                     / (PhysicalConstants.K * temperature);
             double lowest = lowest(levels);
+            double limit = boundLimitPerCm(levels.species());
             double partition = 0;
             for (int i = 0; i < levels.size(); i++) {
-                if (levels.designation(i).hasJ()) {
+                if (levels.designation(i).hasJ() && levels.energyPerCm(i) - lowest < limit) {
                     partition += (levels.designation(i).twoJ() + 1)
                             * Math.exp(-(levels.energyPerCm(i) - lowest) * hcPerCmOverKt);
                 }
@@ -1075,7 +1114,7 @@ public final class Scene {
             if (ion == null) {
                 ion = HydrogenLikeModel.of(e.nucleus(), Tier.DIRAC);
             }
-            return IonisationBalance.helium(ion, temperature, electronDensity, nMax, Math.max(1, partition))[0];
+            return IonisationBalance.helium(ion, temperature, electronDensity, Math.max(1, partition))[0];
         }
 
         /**
@@ -1215,12 +1254,29 @@ public final class Scene {
             HydrogenLikeModel model = ion.model;
             double kT = PhysicalConstants.K * temperature;
             double ground = model.energy(1, 0, 1);
-            double partition = IonisationBalance.hydrogenLikePartition(model, temperature, nMax);
+            double partition = ionPartition(model);
+            if (Double.isNaN(electronDensity) && partition < 2) {
+                notes.add(String.format(java.util.Locale.ROOT, "%s: without an electron density its partition"
+                        + " function (Planck-Larkin) is %.4g at %.6g K, below its ground level's weight 2: so hot a"
+                        + " gas keeps this stage bound only where a density holds it; give an electron density",
+                        ion.species.notation(), partition, temperature));
+            }
             double number = ion.abundance * stageFraction(ion, notes);
             double[] hertz = ionRestHertz(windowNm, doppler);
             HydrogenLikeLines source = HydrogenLikeLines.of(model);
-            LineTable table = components ? source.components(nMax, hertz[0], hertz[1])
-                    : source.multiplets(nMax, hertz[0], hertz[1]);
+            int drawn = drawnN(model);
+            if (drawn < nMax) {
+                notes.add(String.format(java.util.Locale.ROOT, "%s: levels above n = %d lie above the ionisation"
+                        + " limit lowered by the plasma (Debye screening, %.3g eV at %.6g K and %.6g m^-3); their"
+                        + " lines are not drawn (nMax %d)", ion.species.notation(), drawn,
+                        IonisationBalance.ionisationLowering(temperature, electronDensity, model.nucleus().z())
+                                / PhysicalConstants.E, temperature, electronDensity, nMax));
+            }
+            if (drawn < 2) {
+                return;
+            }
+            LineTable table = components ? source.components(drawn, hertz[0], hertz[1])
+                    : source.multiplets(drawn, hertz[0], hertz[1]);
             double mass = model.nucleus().massKg() + PhysicalConstants.ELECTRON_MASS.value();
             double[] shellRate = natural ? new double[nMax + 1] : null;
             for (int i = 0; i < table.size(); i++) {
@@ -1251,14 +1307,31 @@ public final class Scene {
             }
         }
 
+        /**
+         * A one-electron ion's partition function: over its levels below the lowered ionisation
+         * limit with an electron density, Planck-Larkin's without; never nMax's.
+         */
+        private double ionPartition(HydrogenLikeModel model) {
+            return Double.isNaN(electronDensity) ? IonisationBalance.planckLarkinPartition(model, temperature)
+                    : IonisationBalance.boundPartition(model, temperature, electronDensity);
+        }
+
+        /** The highest upper n drawn: nMax, or lower where the plasma's lowered limit ends the levels. */
+        private int drawnN(HydrogenLikeModel model) {
+            if (Double.isNaN(electronDensity)) {
+                return nMax;
+            }
+            return Math.min(nMax, IonisationBalance.highestBoundN(model, temperature, electronDensity));
+        }
+
         /** The Saha fraction of the ion's stage, or 1 when there is no density or no balance for it. */
         private double stageFraction(HydrogenLikeEmitter ion, List<String> notes) {
             if (Double.isNaN(electronDensity)) {
                 return 1;
             }
             return switch (ion.model.nucleus().z()) {
-                case 1 -> IonisationBalance.hydrogen(ion.model, temperature, electronDensity, nMax)[0];
-                case 2 -> IonisationBalance.helium(ion.model, temperature, electronDensity, nMax,
+                case 1 -> IonisationBalance.hydrogen(ion.model, temperature, electronDensity)[0];
+                case 2 -> IonisationBalance.helium(ion.model, temperature, electronDensity,
                         heliumNeutralPartition(ion.model.nucleus()))[1];
                 default -> {
                     notes.add(ion.species.notation() + ": no ionisation balance for Z = " + ion.model.nucleus().z()
