@@ -50,8 +50,11 @@ import org.ritzwerk.quantity.Unit;
  * stage's Saha fraction with the lowered ionisation energy ({@link IonisationBalance}); for other
  * elements N is the abundance of that ion itself.</li>
  * <li>Line lists ({@link Builder#lineList}): positions and photon rates as given, or a
- * {@link LineList}'s relative intensities (a lamp set, say) scaled to the strongest ion line;
- * broadened and shifted like the rest.</li>
+ * {@link LineList}'s relative intensities (a lamp set, say) scaled so the list's strongest line,
+ * over the whole list, has the photon rate of the ions' strongest line at any wavelength (see
+ * {@link Builder#lineList(LineList, Function)}): the same scale whatever the grid, so the
+ * ratio of a list line to an ion line does not depend on the spectral window; broadened and
+ * shifted like the rest.</li>
  * <li>Neutral alkali atoms ({@link Builder#alkali}): their lines between the quantum-defect
  * model's levels, populated by Boltzmann's law over the same levels.</li>
  * <li>Any atom with a level list ({@link Builder#levels}, He I say): its Ritz lines that carry an
@@ -77,6 +80,14 @@ import org.ritzwerk.quantity.Unit;
  * thread count, bit for bit.
  */
 public final class Scene {
+
+    /**
+     * Line lists with relative intensities are scaled to the strongest one-electron line with upper
+     * n up to this (at any wavelength): in practice Lyman-alpha (n = 2), as the higher shells'
+     * weights 2 n^2 cannot make up for their Boltzmann factors and their A values, which fall
+     * about as n^-3; the maximum is taken over these shells, not assumed.
+     */
+    static final int REFERENCE_N = 10;
 
     /** Natural widths cost an exact decay-rate sum per shell; they are offered up to this n. */
     public static final int MAX_N_WITH_NATURAL_WIDTHS = 60;
@@ -547,9 +558,12 @@ public final class Scene {
         /**
          * A line list with relative intensities (a lamp set, say): one emitter per species in it,
          * lines without an intensity left out. When the scene has one-electron ions the intensities
-         * are scaled so the list's strongest line has the photon rate of the strongest ion line as
-         * drawn (with the ions' abundances and, given a density, their Saha balance), so both
-         * show; otherwise they are used as given.
+         * are scaled so the list's strongest line (over the whole list, in the grid or not) has the
+         * photon rate of the ions' strongest line at any wavelength (in the grid or not: in practice
+         * Lyman-alpha of the brightest ion, with the ions' abundances, partition functions and,
+         * given a density, their Saha balance); both scales are fixed by the scene's emitters and
+         * plasma, not by the grid, so a list line's ratio to an ion line is the same in every
+         * window (two channels of one instrument agree). Without ions they are used as given.
          * Labelled {@code Ne I 640.2248 nm air}.
          *
          * @param list   the list, in any wavelength unit and medium
@@ -1118,24 +1132,30 @@ public final class Scene {
         }
 
         /**
-         * The strongest one-electron line's photon rate as the scene draws it (the ions'
-         * abundances and, with a density, their Saha balance), or 0 without ions.
+         * The reference photon rate for line lists with relative intensities: the strongest
+         * one-electron line at any wavelength, upper n up to REFERENCE_N, 10 (and the drawn
+         * n), with the ions' abundances, partition functions and, given a density, their Saha
+         * balance; in practice Lyman-alpha of the brightest ion. It does not depend on the grid, so
+         * a list line's ratio to an ion line is the same in every window. 0 without ions.
          */
         private double strongestIonLine() {
-            if (ions.isEmpty()) {
-                return 0;
-            }
-            Builder probe = Scene.builder(grid).medium(medium).nMax(nMax).temperature(temperature);
-            if (!Double.isNaN(electronDensity)) {
-                probe.electronDensity(electronDensity);
-            }
-            for (HydrogenLikeEmitter ion : ions) {
-                probe.hydrogenLike(ion.species(), ion.model(), ion.abundance());
-            }
-            Lines ionLines = probe.build().lines();
             double strongest = 0;
-            for (int i = 0; i < ionLines.size(); i++) {
-                strongest = Math.max(strongest, ionLines.photons(i));
+            double kT = PhysicalConstants.K * temperature;
+            List<String> ignored = new ArrayList<>();   // the same notes come again from the ions' own lines
+            for (HydrogenLikeEmitter ion : ions) {
+                HydrogenLikeModel model = ion.model();
+                int upper = Math.min(REFERENCE_N, drawnN(model));
+                if (upper < 2) {
+                    continue;
+                }
+                double number = ion.abundance() * stageFraction(ion, ignored) / ionPartition(model);
+                double ground = model.energy(1, 0, 1);
+                LineTable table = HydrogenLikeLines.of(model).multiplets(upper, 0, Double.MAX_VALUE);
+                for (int i = 0; i < table.size(); i++) {
+                    double photons = number * table.upperWeight(i) * table.einsteinA(i)
+                            * Math.exp(-(model.energy(table.upperN(i), 0, 1) - ground) / kT);
+                    strongest = Math.max(strongest, photons);
+                }
             }
             return strongest;
         }

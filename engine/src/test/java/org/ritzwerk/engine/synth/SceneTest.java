@@ -415,6 +415,37 @@ class SceneTest {
         assertTrue(warm.notes().isEmpty(), warm.notes().toString());
     }
 
+    /**
+     * The review: a lamp list's lines against H-beta changed by 6.9 times between a 430-500 nm
+     * and a 430-660 nm window of the same scene, the list being scaled by its strongest line
+     * anywhere and the ions by theirs in the window. Now both scales are fixed by the scene, so
+     * two windows (two channels of one instrument) give the same ratio of two lines in both.
+     */
+    @Test
+    void aListLinesRatioToAnIonLineIsTheSameInEveryWindow() {
+        Species ne = Species.parse("Ne I");
+        // Invented intensities: the list's strongest line (640.2 nm) lies only in the wider window.
+        org.ritzwerk.data.LineList lamp = org.ritzwerk.data.LineList.builder(new org.ritzwerk.data.DataSetInfo(
+                "test-lamp", org.ritzwerk.data.DataKind.LAMP_LINES, "test lamp", "1",
+                org.ritzwerk.data.Provenance.fromMemory("test"), java.util.List.of(ne)),
+                org.ritzwerk.quantity.Unit.NANOMETRE, Medium.air(), "")
+                .add(ne, 470.886, Double.NaN, 50, null, Double.NaN, null, null, null)
+                .add(ne, 640.2248, Double.NaN, 1000, null, Double.NaN, null, null, null)
+                .build();
+        // Ne-20 mass 19.992 u (from memory), for the Doppler width only.
+        Nucleus neon = new Nucleus(10, 20, 19.992 * PhysicalConstants.ATOMIC_MASS_CONSTANT.value(), 0,
+                OptionalDouble.empty(), OptionalDouble.empty(), "test");
+        double[] ratios = new double[2];
+        double[] to = {500, 660};
+        for (int w = 0; w < 2; w++) {
+            Scene scene = Scene.builder(PixelGrid.linear(430, to[w], 2000)).medium(Medium.air())
+                    .hydrogenLike(Species.parse("H I"), H, 1).lineList(lamp, s -> neon).temperature(9000).build();
+            ratios[w] = photonsNear(scene.lines(), "Ne I", 470.886) / photonsNear(scene.lines(), "H I", 486.13);
+        }
+        assertTrue(ratios[0] > 0);
+        assertEquals(ratios[0], ratios[1], 1e-12 * ratios[0]);
+    }
+
     @Test
     void aDensityBelowTheStarkFitIsNoted() {
         Scene scene = Scene.builder(PixelGrid.linear(400, 700, 100)).hydrogenLike(Species.parse("H I"), H, 1)
