@@ -123,9 +123,10 @@ public final class Scene {
 
     /**
      * @param grid the pixels; its axis is wavelength in nm in the medium given to the builder
-     * @return a builder with: temperature 10 000 K, no electron density, velocity 0, vacuum
-     *         axis, ideal instrument, nMax 30, window {@link LineRenderer#DEFAULT_WINDOW},
-     *         10 000 peak counts, no continuum, noise-free
+     * @return a builder with: no temperature (every scene must be given one, {@link
+     *         Builder#temperature}; {@link Builder#build} refuses without), no electron density,
+     *         velocity 0, vacuum axis, ideal instrument, nMax 30, window
+     *         {@link LineRenderer#DEFAULT_WINDOW}, 10 000 peak counts, no continuum, noise-free
      */
     public static Builder builder(PixelGrid grid) {
         return new Builder(Objects.requireNonNull(grid, "grid"));
@@ -384,7 +385,7 @@ public final class Scene {
         private final PixelGrid grid;
         private final List<HydrogenLikeEmitter> ions = new ArrayList<>();
         private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter, LevelEmitter, RelativeSet or RelativeColumns
-        private double temperature = 10_000;
+        private double temperature = Double.NaN;
         private double electronDensity = Double.NaN;
         private double velocity;
         private double collisional;
@@ -810,12 +811,18 @@ public final class Scene {
 
         /**
          * @return the scene, its lines computed
-         * @throws IllegalArgumentException when there are no emitters, or natural widths are
+         * @throws IllegalArgumentException when there are no emitters, no temperature was given
+         *         (every scene needs one: populations and Doppler widths), or natural widths are
          *         asked for beyond {@link #MAX_N_WITH_NATURAL_WIDTHS}
          */
         public Scene build() {
             if (ions.isEmpty() && lists.isEmpty()) {
                 throw new IllegalArgumentException("the scene has no emitters: add a one-electron ion or a line list");
+            }
+            if (Double.isNaN(temperature)) {
+                throw new IllegalArgumentException("the scene has no temperature: call temperature(kelvin) (the"
+                        + " excitation and kinetic temperature in K, for the populations and Doppler widths);"
+                        + " there is no default");
             }
             if (natural && nMax > MAX_N_WITH_NATURAL_WIDTHS && !ions.isEmpty()) {
                 throw new IllegalArgumentException("natural widths are computed up to n = " + MAX_N_WITH_NATURAL_WIDTHS

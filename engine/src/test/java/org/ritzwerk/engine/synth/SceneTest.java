@@ -359,6 +359,23 @@ class SceneTest {
     }
 
     /**
+     * The review found a scene without a temperature rendered at 10,000 K, silently. Every scene
+     * needs one (populations and Doppler widths, line lists included), so build() refuses, naming it.
+     */
+    @Test
+    void aSceneWithoutATemperatureIsRefusedNamingIt() {
+        PixelGrid grid = PixelGrid.linear(400, 700, 100);
+        for (Scene.Builder b : new Scene.Builder[] {Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1),
+            Scene.builder(grid).lineList("Xx I", new double[] {500}, new double[] {1}, 3e-26)}) {
+            IllegalArgumentException e = assertThrows(IllegalArgumentException.class, b::build);
+            assertTrue(e.getMessage().contains("no temperature") && e.getMessage().contains("temperature(kelvin)"),
+                    e.getMessage());
+            b.temperature(10_000);
+            assertTrue(b.build().lines().size() > 0, "given one, it builds");
+        }
+    }
+
+    /**
      * The review's scene (H I and He II, 380-700 nm, 20,000 K): H-alpha / He II 468.6 was
      * 9.42e8, 2.40e8 and 3.28e5 for nMax 10, 30 and 300, and with 1e22 m^-3 6.73e6 and 4.81e5 for
      * nMax 30 and 300, because U was summed to nMax. The drawing cutoff must not change the
