@@ -438,7 +438,7 @@ class SynthCommandTest {
         assertTrue(run.err().contains("note: at this density the Balmer lines above n = 8 merge into a continuum"
                 + " (Inglis-Teller); they are drawn as separate lines up to n = 23"), run.err());
         assertTrue(run.err().contains("note: H I: levels above n = 23 lie above the ionisation limit lowered by the"
-                + " plasma (Debye screening, 0.0256 eV"), run.err());
+                + " plasma (Debye screening, by 0.0256 eV); their lines are not drawn (nMax 30)"), run.err());
     }
 
     /**

@@ -50,8 +50,8 @@ import org.ritzwerk.quantity.Unit;
  * stage's Saha fraction with the lowered ionisation energy ({@link IonisationBalance}); for other
  * elements N is the abundance of that ion itself.</li>
  * <li>Line lists ({@link Builder#lineList}): positions and photon rates as given, or a
- * {@link LineList}'s relative intensities (a lamp set, say) scaled so the list's strongest line,
- * over the whole list, has the photon rate of the ions' strongest line at any wavelength (see
+ * {@link LineList}'s relative intensities (a lamp set, say) scaled so the list's strongest line
+ * has the photon rate of the ions' strongest line within the list's own wavelength span (see
  * {@link Builder#lineList(LineList, Function)}): the same scale whatever the grid, so the
  * ratio of a list line to an ion line does not depend on the spectral window; broadened and
  * shifted like the rest.</li>
@@ -83,9 +83,9 @@ public final class Scene {
 
     /**
      * Line lists with relative intensities are scaled to the strongest one-electron line with upper
-     * n up to this (at any wavelength): in practice Lyman-alpha (n = 2), as the higher shells'
-     * weights 2 n^2 cannot make up for their Boltzmann factors and their A values, which fall
-     * about as n^-3; the maximum is taken over these shells, not assumed.
+     * n up to this in the list's own wavelength span: the strong lines of a series come from its
+     * lowest upper levels (their A values fall about as n^-3), so the higher shells, whose lines
+     * would make the scale depend on nMax, are left out of the search.
      */
     static final int REFERENCE_N = 10;
 
@@ -560,11 +560,13 @@ public final class Scene {
          * A line list with relative intensities (a lamp set, say): one emitter per species in it,
          * lines without an intensity left out. When the scene has one-electron ions the intensities
          * are scaled so the list's strongest line (over the whole list, in the grid or not) has the
-         * photon rate of the ions' strongest line at any wavelength (in the grid or not: in practice
-         * Lyman-alpha of the brightest ion, with the ions' abundances, partition functions and,
-         * given a density, their Saha balance); both scales are fixed by the scene's emitters and
-         * plasma, not by the grid, so a list line's ratio to an ion line is the same in every
-         * window (two channels of one instrument agree). Without ions they are used as given.
+         * photon rate of the ions' strongest line (upper n up to 10, with the ions' abundances,
+         * partition functions and, given a density, their Saha balance) within the list's own span,
+         * its shortest to its longest line with an intensity (H-alpha for a visible lamp list with
+         * hydrogen), or at any wavelength (Lyman-alpha) when none lies in that span. Both scales are
+         * fixed by the scene's emitters, plasma and list, not by the grid, so a list line's ratio to
+         * an ion line is the same in every window (two channels of one instrument agree). Without
+         * ions they are used as given.
          * Labelled {@code Ne I 640.2248 nm air}.
          *
          * @param list   the list, in any wavelength unit and medium
@@ -942,7 +944,6 @@ public final class Scene {
         /** The line lists as fixed photon rates, in the order they were added. */
         private List<ListEmitter> resolvedLists(List<String> notes) {
             List<ListEmitter> out = new ArrayList<>();
-            double ionScale = Double.NaN;
             for (Object entry : lists) {
                 if (entry instanceof ListEmitter fixed) {
                     out.add(fixed);
@@ -951,15 +952,9 @@ public final class Scene {
                 } else if (entry instanceof LevelEmitter levels) {
                     out.add(levelLines(levels, notes));
                 } else if (entry instanceof RelativeColumns columns) {
-                    if (Double.isNaN(ionScale)) {
-                        ionScale = strongestIonLine();
-                    }
-                    out.addAll(relativeColumnLines(columns, ionScale));
+                    out.addAll(relativeColumnLines(columns));
                 } else {
-                    if (Double.isNaN(ionScale)) {
-                        ionScale = strongestIonLine();
-                    }
-                    out.addAll(relativeSetLines((RelativeSet) entry, ionScale));
+                    out.addAll(relativeSetLines((RelativeSet) entry));
                 }
             }
             return out;
@@ -1139,13 +1134,21 @@ public final class Scene {
         }
 
         /**
-         * The reference photon rate for line lists with relative intensities: the strongest
-         * one-electron line at any wavelength, upper n up to REFERENCE_N, 10 (and the drawn
-         * n), with the ions' abundances, partition functions and, given a density, their Saha
-         * balance; in practice Lyman-alpha of the brightest ion. It does not depend on the grid, so
-         * a list line's ratio to an ion line is the same in every window. 0 without ions.
+         * The reference photon rate for a line list with relative intensities whose lines (with an
+         * intensity) span the vacuum wavelengths loNm to hiNm: the strongest one-electron line at
+         * rest in that span (the list's own, not the grid's), upper n up to REFERENCE_N, 10 (and the
+         * drawn n), with the ions' abundances, partition functions and, given a density, their Saha
+         * balance; when no such line lies in the span, the strongest at any wavelength (in practice
+         * Lyman-alpha of the brightest ion). It does not depend on the grid, so a list line's ratio to
+         * an ion line is the same in every window. 0 without ions.
          */
-        private double strongestIonLine() {
+        private double strongestIonLine(double loNm, double hiNm) {
+            double inSpan = strongestIonLine(PhysicalConstants.C / (hiNm * 1e-9), PhysicalConstants.C / (loNm * 1e-9),
+                    true);
+            return inSpan > 0 ? inSpan : strongestIonLine(0, Double.MAX_VALUE, false);
+        }
+
+        private double strongestIonLine(double loHertz, double hiHertz, boolean span) {
             double strongest = 0;
             double kT = PhysicalConstants.K * temperature;
             List<String> ignored = new ArrayList<>();   // the same notes come again from the ions' own lines
@@ -1157,7 +1160,7 @@ public final class Scene {
                 }
                 double number = ion.abundance() * stageFraction(ion, ignored) / ionPartition(model);
                 double ground = model.energy(1, 0, 1);
-                LineTable table = HydrogenLikeLines.of(model).multiplets(upper, 0, Double.MAX_VALUE);
+                LineTable table = HydrogenLikeLines.of(model).multiplets(upper, loHertz, hiHertz);
                 for (int i = 0; i < table.size(); i++) {
                     double photons = number * table.upperWeight(i) * table.einsteinA(i)
                             * Math.exp(-(model.energy(table.upperN(i), 0, 1) - ground) / kT);
@@ -1173,7 +1176,7 @@ public final class Scene {
          * does), photon rates and labels, in the same order; each species' lines are kept as
          * indices into the columns and their labels made on demand.
          */
-        private List<ListEmitter> relativeColumnLines(RelativeColumns r, double ionScale) {
+        private List<ListEmitter> relativeColumnLines(RelativeColumns r) {
             LineColumns columns = r.columns();
             int size = columns.size();
             double[] vacuum = new double[size];
@@ -1184,12 +1187,19 @@ public final class Scene {
                 throw new IllegalArgumentException("line list " + columns.id() + ": " + e.getMessage(), e);
             }
             double strongest = 0;
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = 0;
             for (int i = 0; i < size; i++) {
                 double intensity = columns.intensity(i);
                 if (intensity > strongest) {
                     strongest = intensity;
                 }
+                if (intensity > 0) {
+                    lo = Math.min(lo, vacuum[i] * 1e9);
+                    hi = Math.max(hi, vacuum[i] * 1e9);
+                }
             }
+            double ionScale = ions.isEmpty() ? 0 : strongestIonLine(lo, hi);
             double scale = ionScale > 0 ? ionScale / strongest : 1;
             String suffix = " " + columns.unit().symbol() + (columns.medium() == null ? "" : " "
                     + columns.medium().label());
@@ -1225,12 +1235,20 @@ public final class Scene {
         }
 
         /** A line set with relative intensities: one emitter per species, lines with an intensity, scaled. */
-        private List<ListEmitter> relativeSetLines(RelativeSet r, double ionScale) {
+        private List<ListEmitter> relativeSetLines(RelativeSet r) {
             LineSet set = r.set();
             double strongest = 0;
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = 0;
             for (int i = 0; i < set.size(); i++) {
-                strongest = Math.max(strongest, set.relativeIntensity(i).orElse(0));
+                double intensity = set.relativeIntensity(i).orElse(0);
+                strongest = Math.max(strongest, intensity);
+                if (intensity > 0) {
+                    lo = Math.min(lo, set.vacuumWavelengthNm(i));
+                    hi = Math.max(hi, set.vacuumWavelengthNm(i));
+                }
             }
+            double ionScale = ions.isEmpty() ? 0 : strongestIonLine(lo, hi);
             double scale = ionScale > 0 ? ionScale / strongest : 1;
             List<ListEmitter> out = new ArrayList<>();
             for (Species species : set.speciesList()) {
@@ -1284,7 +1302,7 @@ public final class Scene {
             double partition = ionPartition(model);
             if (Double.isNaN(electronDensity) && partition < 2) {
                 notes.add(String.format(java.util.Locale.ROOT, "%s: without an electron density its partition"
-                        + " function (Planck-Larkin) is %.4g at %.6g K, below its ground level's weight 2: so hot a"
+                        + " function (Planck-Larkin) is %.4g at %.0f K, below its ground level's weight 2: so hot a"
                         + " gas keeps this stage bound only where a density holds it; give an electron density",
                         ion.species.notation(), partition, temperature));
             }
@@ -1294,10 +1312,10 @@ public final class Scene {
             int drawn = drawnN(model);
             if (drawn < nMax) {
                 notes.add(String.format(java.util.Locale.ROOT, "%s: levels above n = %d lie above the ionisation"
-                        + " limit lowered by the plasma (Debye screening, %.3g eV at %.6g K and %.6g m^-3); their"
-                        + " lines are not drawn (nMax %d)", ion.species.notation(), drawn,
+                        + " limit lowered by the plasma (Debye screening, by %.3g eV); their lines are not drawn"
+                        + " (nMax %d)", ion.species.notation(), drawn,
                         IonisationBalance.ionisationLowering(temperature, electronDensity, model.nucleus().z())
-                                / PhysicalConstants.E, temperature, electronDensity, nMax));
+                                / PhysicalConstants.E, nMax));
             }
             if (drawn < 2) {
                 return;
