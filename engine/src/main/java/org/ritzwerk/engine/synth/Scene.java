@@ -89,6 +89,9 @@ public final class Scene {
      */
     static final int REFERENCE_N = 10;
 
+    /** An alkali atom's partition function is summed to this n (see Builder#alkaliPartition). */
+    static final int ALKALI_PARTITION_N = 500;
+
     /** Natural widths cost an exact decay-rate sum per shell; they are offered up to this n. */
     public static final int MAX_N_WITH_NATURAL_WIDTHS = 60;
 
@@ -477,9 +480,11 @@ public final class Scene {
         /**
          * A neutral alkali atom: its E1 lines between the quantum-defect model's levels (n &lt;= nMax,
          * l &lt;= 3; {@link AlkaliLines}) near the grid, each with the photon rate
-         * abundance (2 j_u + 1) A exp(-E_u / kT) / U, U summed over the same levels (Boltzmann's
-         * law, optically thin, as for the one-electron ions; no ionisation balance). Labelled
-         * {@code Rb-87 I 5p 2P3/2 - 5s 2S1/2}.
+         * abundance (2 j_u + 1) A exp(-E_u / kT) / U (Boltzmann's law, optically thin, as for the
+         * one-electron ions; no ionisation balance). U is summed over the model's levels (l &lt;= 3)
+         * as the ions' is, never to nMax: with an electron density over the levels below the
+         * Debye-lowered limit (at most n = 500), whose lines alone are drawn; without one in the
+         * Planck-Larkin form. Labelled {@code Rb-87 I 5p 2P3/2 - 5s 2S1/2}.
          *
          * @param atom      the atom
          * @param abundance its number (or number density) of neutral atoms, positive
@@ -967,33 +972,84 @@ public final class Scene {
             double highHz = PhysicalConstants.C / (grid.lowest() * 0.98e-9 * (1 - beta));
             double kT = PhysicalConstants.K * temperature;
             double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
+            double partition = alkaliPartition(atom);
+            // With a density, levels above the Debye-lowered limit have merged into the continuum.
+            double bound = Double.isNaN(electronDensity) ? Double.POSITIVE_INFINITY : atom.ionisationLimitPerCm()
+                    - IonisationBalance.ionisationLowering(temperature, electronDensity, 1) / hcPerCm;
+            List<AlkaliLines.Line> found = AlkaliLines.window(atom, lowHz, highHz, nMax, 3, 0, f -> { });
+            double[] nm = new double[found.size()];
+            double[] photons = new double[found.size()];
+            String[] labels = new String[found.size()];
+            int n = 0;
+            for (AlkaliLines.Line line : found) {
+                double upper = atom.energyPerCm(line.upper());
+                if (upper >= bound) {
+                    continue;
+                }
+                nm[n] = PhysicalConstants.C / line.frequency() * 1e9;
+                photons[n] = e.abundance() * (line.upper().twoJ() + 1) * line.einsteinA()
+                        * Math.exp(-upper * hcPerCm / kT) / partition;
+                labels[n] = atom.species().notation() + " " + line.label();
+                n++;
+            }
+            String[] kept = Arrays.copyOf(labels, n);
+            return new ListEmitter(atom.species().notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n),
+                    e.massKg(), i -> kept[i]);
+        }
+
+        /**
+         * An alkali atom's partition function over the model's levels (l &lt;= 3), as for the
+         * one-electron ions never cut at nMax: with an electron density, the sum of (2j + 1)
+         * exp(-E / kT) over the levels bound by more than the Debye lowering (z = 1,
+         * {@link IonisationBalance#ionisationLowering}); without one, the Planck-Larkin form
+         * exp(-chi / kT) sum (2j + 1) (exp(I / kT) - 1 - I / kT) over the levels, I their binding
+         * energies (the form of {@link IonisationBalance#planckLarkinPartition} carried over to a
+         * quantum-defect atom, whose divergent part is its hydrogen-like Rydberg tail; our
+         * extension), summed to n = 500, beyond which the terms, falling
+         * as n^-4, add below 1e-9 of it. With a density the sum ends where the s level, the most
+         * bound of its n, is no longer bound, or at n = 500 (densities below about 1e17 m^-3).
+         */
+        private double alkaliPartition(AlkaliAtom atom) {
+            double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100 / (PhysicalConstants.K * temperature);
+            double limit = atom.ionisationLimitPerCm();
+            boolean dense = !Double.isNaN(electronDensity);
+            double lowered = dense ? IonisationBalance.ionisationLowering(temperature, electronDensity, 1)
+                    / (PhysicalConstants.H * PhysicalConstants.C * 100) : 0;
+            double a = limit * hcPerCmOverKt;
             double partition = 0;
-            for (int n = 1; n <= nMax; n++) {
+            for (int n = 1; n <= ALKALI_PARTITION_N; n++) {
+                boolean anyBound = false;
                 for (int l = 0; l <= Math.min(3, n - 1); l++) {
                     for (int twoJ = Math.max(1, 2 * l - 1); twoJ <= 2 * l + 1; twoJ += 2) {
                         if (n < atom.lowestN(l)) {
                             continue;
                         }
+                        double energy;
                         try {
-                            partition += (twoJ + 1) * Math.exp(-atom.energyPerCm(State.of(n, l, twoJ)) * hcPerCm / kT);
+                            energy = atom.energyPerCm(State.of(n, l, twoJ));
                         } catch (RydbergException ex) {
-                            // no energy for it: not in the model, not in the sum
+                            continue;   // no energy for it: not in the model, not in the sum
+                        }
+                        double binding = limit - energy;
+                        if (dense) {
+                            if (binding > lowered) {
+                                anyBound = true;
+                                partition += (twoJ + 1) * Math.exp(-energy * hcPerCmOverKt);
+                            }
+                        } else {
+                            anyBound = true;
+                            double x = binding * hcPerCmOverKt;
+                            double bracket = x < 1e-3 ? x * x * (0.5 + x * (1.0 / 6 + x / 24)) * Math.exp(-a)
+                                    : Math.exp(x - a) - (1 + x) * Math.exp(-a);
+                            partition += (twoJ + 1) * bracket;
                         }
                     }
                 }
+                if (dense && !anyBound && n > atom.lowestN(0)) {
+                    break;   // the s level, the most bound of its n, is unbound: so is everything above
+                }
             }
-            List<AlkaliLines.Line> found = AlkaliLines.window(atom, lowHz, highHz, nMax, 3, 0, f -> { });
-            double[] nm = new double[found.size()];
-            double[] photons = new double[found.size()];
-            String[] labels = new String[found.size()];
-            for (int i = 0; i < found.size(); i++) {
-                AlkaliLines.Line line = found.get(i);
-                nm[i] = PhysicalConstants.C / line.frequency() * 1e9;
-                photons[i] = e.abundance() * (line.upper().twoJ() + 1) * line.einsteinA()
-                        * Math.exp(-atom.energyPerCm(line.upper()) * hcPerCm / kT) / partition;
-                labels[i] = atom.species().notation() + " " + line.label();
-            }
-            return new ListEmitter(atom.species().notation(), nm, photons, e.massKg(), i -> labels[i]);
+            return partition;
         }
 
         /**

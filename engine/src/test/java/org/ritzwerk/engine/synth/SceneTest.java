@@ -402,6 +402,36 @@ class SceneTest {
         }
     }
 
+    /**
+     * Alkali atoms had the same fault: U summed over the model's levels to nMax. Rb at 6000 K beside
+     * H I: the ratio of Rb's D2 line to H-alpha is now the same for nMax 20 and 80, with a density
+     * and without (the old sum grew by about 32 exp(-chi / kT) = 0.01 per n there).
+     */
+    @Test
+    void anAlkaliAtomsLinesDoNotDependOnNMaxEither() {
+        org.ritzwerk.engine.rydberg.AlkaliAtom rb = org.ritzwerk.engine.rydberg.TestAtoms.rubidium();
+        // Rb-87 mass 86.909 u (from memory), for the Doppler width only.
+        Nucleus rb87 = new Nucleus(37, 87, 86.909 * PhysicalConstants.ATOMIC_MASS_CONSTANT.value(), 3,
+                OptionalDouble.empty(), OptionalDouble.empty(), "test");
+        PixelGrid grid = PixelGrid.linear(640, 800, 2000);
+        for (double ne : new double[] {Double.NaN, 1e22}) {
+            double first = Double.NaN;
+            for (int nMax : new int[] {20, 80}) {
+                Scene.Builder b = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1).alkali(rb, 1, rb87)
+                        .temperature(6000).nMax(nMax);
+                if (!Double.isNaN(ne)) {
+                    b.electronDensity(ne);
+                }
+                Scene.Lines lines = b.build().lines();
+                double ratio = photonsNear(lines, rb.species().notation(), 780.24) / photonsNear(lines, "H I", 656.47);
+                if (Double.isNaN(first)) {
+                    first = ratio;
+                }
+                assertEquals(first, ratio, 1e-12 * first, "ne " + ne + ", nMax " + nMax);
+            }
+        }
+    }
+
     /** The photon rate of the line of a species nearest a vacuum wavelength (within 0.1 nm). */
     private static double photonsNear(Scene.Lines lines, String species, double vacuumNm) {
         int best = -1;
