@@ -863,7 +863,8 @@ public final class Scene {
          * The work {@link #build} spends on the one-electron ions' lines, in the units of
          * {@link HydrogenLikeLines#workUnits} summed over the ions, over the same window: for an
          * estimate of the time before a long build (the exact radial integrals grow about as
-         * n^3.6 at high nMax).
+         * n^3.6 at high nMax). With a temperature and an electron density given, up to the n the
+         * build draws (the last bound level, when below nMax).
          *
          * @return the work units; 0 without one-electron ions
          */
@@ -871,7 +872,10 @@ public final class Scene {
             double[] hertz = ionRestHertz(ionWindowNm(), doppler());
             double units = 0;
             for (HydrogenLikeEmitter ion : ions) {
-                units += HydrogenLikeLines.of(ion.model()).workUnits(nMax, hertz[0], hertz[1], components);
+                int upper = Double.isNaN(temperature) ? nMax : drawnN(ion.model());
+                if (upper >= 2) {
+                    units += HydrogenLikeLines.of(ion.model()).workUnits(upper, hertz[0], hertz[1], components);
+                }
             }
             return units;
         }

@@ -392,6 +392,14 @@ class SceneTest {
                 if (!Double.isNaN(ne)) {
                     b.electronDensity(ne);
                 }
+                if (!Double.isNaN(ne) && nMax == 300) {
+                    // The build's work estimate (for the command's long-build warning) stops at the
+                    // last bound level too: the same as for nMax 42 (H I ends at 30, He II at 42).
+                    double bound = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1)
+                            .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(20_000).electronDensity(ne)
+                            .nMax(42).ionLineWorkUnits();
+                    assertEquals(bound, b.ionLineWorkUnits(), 0.0);
+                }
                 Scene.Lines lines = b.build().lines();
                 double ratio = photonsNear(lines, "H I", 656.47) / photonsNear(lines, "He II", 468.70);
                 if (Double.isNaN(first)) {
