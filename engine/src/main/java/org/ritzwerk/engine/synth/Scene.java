@@ -1014,7 +1014,8 @@ public final class Scene {
          * bound of its n, is no longer bound, or at n = 500 (densities below about 1e17 m^-3).
          */
         private double alkaliPartition(AlkaliAtom atom) {
-            double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100 / (PhysicalConstants.K * temperature);
+            double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100
+                    / (PhysicalConstants.K * temperature);
             double limit = atom.ionisationLimitPerCm();
             boolean dense = !Double.isNaN(electronDensity);
             double lowered = dense ? IonisationBalance.ionisationLowering(temperature, electronDensity, 1)

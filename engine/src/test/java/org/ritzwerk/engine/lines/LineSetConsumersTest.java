@@ -176,9 +176,8 @@ class LineSetConsumersTest {
         PixelGrid grid = PixelGrid.linear(580, 650, 700);
         Scene.Lines fromList = Scene.builder(grid).medium(Medium.air()).temperature(300).lineList(neon, NUCLEI).build()
                 .lines();
-        Scene.Lines fromSet = Scene.builder(grid).medium(Medium.air()).temperature(300).lineSet(LineSet.of(neon), NUCLEI)
-                .build()
-                .lines();
+        Scene.Lines fromSet = Scene.builder(grid).medium(Medium.air()).temperature(300)
+                .lineSet(LineSet.of(neon), NUCLEI).build().lines();
         assertEquals(fromList.size(), fromSet.size());
         for (int i = 0; i < fromList.size(); i++) {
             // Source: Scene.Builder.lineList on the same list.
