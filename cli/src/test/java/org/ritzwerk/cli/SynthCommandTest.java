@@ -422,9 +422,11 @@ class SynthCommandTest {
     }
 
     /**
-     * A dense plasma's notes: Stark widths only for H-alpha and H-beta, and the Balmer lines above
+     * A dense plasma's notes: Stark widths only for H-alpha and H-beta, the Balmer lines above
      * the Inglis-Teller limit (n = 8 at 3e22 m^-3: log10 3e16 = 16.48 = 23.26 - 7.5 log10 n, the
-     * relation from memory) drawn as separate lines.
+     * relation from memory) drawn as separate lines up to the last bound level, and no line from
+     * above the ionisation limit lowered by Debye screening (0.0256 eV at 20,000 K: n = 23 for H,
+     * 13.6 eV / 23^2 &gt; 0.0256 eV &gt; 13.6 eV / 24^2; IonisationBalanceTest's golden file).
      */
     @Test
     void aDensePlasmaSaysWhatItDrawsWithoutStarkWidths() {
@@ -434,7 +436,9 @@ class SynthCommandTest {
         assertTrue(run.err().contains("note: Stark widths are drawn for H-alpha and H-beta of hydrogen and deuterium"
                 + " only"), run.err());
         assertTrue(run.err().contains("note: at this density the Balmer lines above n = 8 merge into a continuum"
-                + " (Inglis-Teller); they are drawn as separate lines up to nMax = 30"), run.err());
+                + " (Inglis-Teller); they are drawn as separate lines up to n = 23"), run.err());
+        assertTrue(run.err().contains("note: H I: levels above n = 23 lie above the ionisation limit lowered by the"
+                + " plasma (Debye screening, by 0.0256 eV); their lines are not drawn (nMax 30)"), run.err());
     }
 
     /**

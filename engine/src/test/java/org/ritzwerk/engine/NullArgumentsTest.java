@@ -30,7 +30,7 @@ class NullArgumentsTest {
         Map<String, Executable> calls = Map.of(
                 "edges", () -> PixelGrid.of(null),
                 "line", () -> BalmerStark.electronDensity(null, 1),
-                "model", () -> IonisationBalance.hydrogen(null, 1e4, 1e20, 10),
+                "model", () -> IonisationBalance.hydrogen(null, 1e4, 1e20),
                 "text", () -> Tolerance.parse(null),
                 "species", () -> LineQuery.defaults().withSpecies(null),
                 "indices", () -> LineSet.empty().select(null),

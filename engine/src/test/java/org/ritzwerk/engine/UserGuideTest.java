@@ -205,7 +205,7 @@ class UserGuideTest {
                 .build();
         SyntheticSpectrum spectrum = scene.render(4);                       // counts(), expectedCounts(), lines()
 
-        double[] hydrogenStages = IonisationBalance.hydrogen(hydrogen, 12_000, 1e21, 30);   // H I, H II
+        double[] hydrogenStages = IonisationBalance.hydrogen(hydrogen, 12_000, 1e21);       // H I, H II
         double ne = BalmerStark.electronDensity(BalmerStark.Line.BETA, 1.2);                // m^-3 from 1.2 nm
 
         assertEquals(20_000, spectrum.counts().length);

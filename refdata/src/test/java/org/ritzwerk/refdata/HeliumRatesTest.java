@@ -171,13 +171,15 @@ class HeliumRatesTest {
     }
     /**
      * With an electron density, He I and He II come from one Saha balance: at 20,000 K and
-     * 1e22 m^-3, n(He II) / n(He I) = 1.74066733 (mpmath 1.3.0 at 30 digits with scipy 1.17.1's
-     * constants: 2 U(He II) / U(He I) (2 pi m_e k T / h^2)^(3/2) / n_e exp(-chi / kT), U(He I) = 1,
-     * U(He II) = 2, chi = 198310.66637 cm^-1; He III is 5e-11 of He II there). He I's partition
-     * function is now the level list's Boltzmann sum in the Saha step too (as in the Boltzmann step),
+     * 1e22 m^-3, n(He II) / n(He I) = 1.75563329 with U(He I) = 1 (engine's golden
+     * plasma-partition.csv, mpmath 1.3.0 at 50 digits: 0.637107006 / 0.362892986, the ionisation
+     * energy chi = 198310.66637 cm^-1 lowered by Debye screening, 0.0148 eV, and U(He II) = 2 over
+     * its bound levels; until 2026-12-05, without the lowering, 1.74066733). He I's partition
+     * function is the level list's Boltzmann sum in the Saha step too (as in the Boltzmann step),
      * U(He I) = 1.0003556 at 20,000 K (summed below), and n(He II) / n(He I) scales as 1 / U(He I).
      * So the photon ratio of a He I line to a He II line with the density is the ratio without it
-     * times U(He I) / 1.74066733; without a density both stages carry their abundance.
+     * times U(He I) / 1.75563329 (He II's U, 2 within 2e-9 with and without a density, cancels);
+     * without a density both stages carry their abundance.
      */
     @Test
     void heliumStagesShareOneSahaBalance() {
@@ -201,7 +203,7 @@ class HeliumRatesTest {
         }
         double partition = neutralPartition(levels, 20_000);
         assertEquals(1.0003556, partition, 1e-7, "the list's sum at 20,000 K");
-        assertEquals(partition / 1.74066733, ratio[1] / ratio[0], 1e-6);
+        assertEquals(partition / 1.75563329, ratio[1] / ratio[0], 1e-6);
         assertTrue(notes.stream().noneMatch(n -> n.contains("no ionisation balance")), notes.toString());
     }
 
@@ -233,9 +235,13 @@ class HeliumRatesTest {
      * from Saha's equation (common practice; e.g. Griem, Principles of Plasma Spectroscopy (1997)),
      * n(He II) n_e / n(He I) = 2 U(He II) / U(He I) (2 pi m_e k T / h^2)^(3/2) exp(-chi / kT), computed
      * here in closed form with the project's constants, chi = 198 310.666 37 cm^-1 (Kandula et al.,
-     * Phys. Rev. A 84, 062512 (2011)), U(He I) the list's sum (2.2168 at 50,000 K, the same the
-     * Boltzmann step divides by) and U(He II) the balance's own hydrogen-like sum to n = 30 (tested
-     * in the plasma package). With U(He I) = 1 in the Saha step only, the tool was low by U(He I).
+     * Phys. Rev. A 84, 062512 (2011)), lowered by Debye screening (IonisationBalance.ionisationLowering,
+     * checked against mpmath in the plasma package), U(He I) the list's sum (2.2168 at 50,000 K, the
+     * same the Boltzmann step divides by). U(He II) over its bound levels divides both the Saha
+     * fraction and, with the density, the He II line, so it cancels; without the density the He II
+     * line is divided by the Planck-Larkin U(He II) instead, which therefore stands in the formula
+     * (until 2026-12-05 both were the sum to nMax = 30 and chi was not lowered). With U(He I) = 1 in
+     * the Saha step only, the tool was low by U(He I).
      */
     @Test
     void theSahaAndBoltzmannStepsShareHeliumsPartitionFunction() {
@@ -257,11 +263,12 @@ class HeliumRatesTest {
         }
         double partitionI = neutralPartition(levels, kelvin);
         assertEquals(2.2168, partitionI, 1e-4, "the list's sum at 50,000 K (the reviewer's figure)");
-        double partitionII = org.ritzwerk.engine.plasma.IonisationBalance.hydrogenLikePartition(ion, kelvin, 30);
+        double partitionII = org.ritzwerk.engine.plasma.IonisationBalance.planckLarkinPartition(ion, kelvin);
         double kT = PhysicalConstants.K * kelvin;
         double h = PhysicalConstants.H;
         double thermal = Math.pow(2 * Math.PI * PhysicalConstants.ELECTRON_MASS.value() * kT / (h * h), 1.5);
-        double chi = 198_310.66637e2 * h * PhysicalConstants.C;
+        double chi = 198_310.66637e2 * h * PhysicalConstants.C
+                - org.ritzwerk.engine.plasma.IonisationBalance.ionisationLowering(kelvin, density, 1);
         double neutralOverIon = density * partitionI / (2 * partitionII * thermal * Math.exp(-chi / kT));
         assertEquals(neutralOverIon, ratio[1] / ratio[0], 1e-9 * neutralOverIon);
     }

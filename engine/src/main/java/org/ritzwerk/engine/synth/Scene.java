@@ -40,20 +40,29 @@ import org.ritzwerk.quantity.Unit;
  * <ul>
  * <li>One-electron emitters ({@link Builder#hydrogenLike}): every n -&gt; n' multiplet whose
  * (shifted) position falls in or near the grid, for upper n up to {@link Builder#nMax}. Photon
- * rate of a line = N g_u A exp(-(E_u - E_1) / kT) / U, U the partition function cut off at
- * nMax (Boltzmann's law, optically thin). N is the emitter's abundance times, when an electron
- * density is given and the element is hydrogen or helium, its stage's Saha fraction
- * ({@link IonisationBalance}); for other elements N is the abundance of that ion itself.</li>
+ * rate of a line = N g_u A exp(-(E_u - E_1) / kT) / U (Boltzmann's law, optically thin). U does
+ * not depend on nMax (which only chooses the lines drawn): with an electron density it is summed
+ * over the levels still bound below the ionisation limit lowered by Debye screening
+ * ({@link IonisationBalance#boundPartition}), and lines from levels above that limit are not
+ * drawn (a note says so); without one it is the Planck-Larkin partition function
+ * ({@link IonisationBalance#planckLarkinPartition}), which needs no cutoff. N is the emitter's
+ * abundance times, when an electron density is given and the element is hydrogen or helium, its
+ * stage's Saha fraction with the lowered ionisation energy ({@link IonisationBalance}); for other
+ * elements N is the abundance of that ion itself.</li>
  * <li>Line lists ({@link Builder#lineList}): positions and photon rates as given, or a
- * {@link LineList}'s relative intensities (a lamp set, say) scaled to the strongest ion line;
- * broadened and shifted like the rest.</li>
+ * {@link LineList}'s relative intensities (a lamp set, say) scaled so the list's strongest line
+ * has the photon rate of the ions' strongest line within the list's own wavelength span (see
+ * {@link Builder#lineList(LineList, Function)}): the same scale whatever the grid, so the
+ * ratio of a list line to an ion line does not depend on the spectral window; broadened and
+ * shifted like the rest.</li>
  * <li>Neutral alkali atoms ({@link Builder#alkali}): their lines between the quantum-defect
  * model's levels, populated by Boltzmann's law over the same levels.</li>
  * <li>Any atom with a level list ({@link Builder#levels}, He I say): its Ritz lines that carry an
  * Einstein A, populated by Boltzmann's law over the list's levels; with an electron density,
  * He I's abundance is weighted by its Saha fraction in the helium balance, as He II's is, with
  * the list's Boltzmann sum as He I's partition function in both steps (and in He II's fraction),
- * cut off at the list's last level.</li>
+ * over the list's levels below the ionisation limit lowered by Debye screening (lines from
+ * levels above it are not drawn).</li>
  * <li>Widths: Doppler (Gaussian, from the temperature and the emitter's mass), the
  * instrument's Gaussian response, and a Lorentzian that is the sum of a collisional FWHM given
  * by the caller, natural widths when asked ({@link Builder#naturalWidths}: each shell's total
@@ -71,6 +80,17 @@ import org.ritzwerk.quantity.Unit;
  * thread count, bit for bit.
  */
 public final class Scene {
+
+    /**
+     * Line lists with relative intensities are scaled to the strongest one-electron line with upper
+     * n up to this in the list's own wavelength span: the strong lines of a series come from its
+     * lowest upper levels (their A values fall about as n^-3), so the higher shells, whose lines
+     * would make the scale depend on nMax, are left out of the search.
+     */
+    static final int REFERENCE_N = 10;
+
+    /** An alkali atom's partition function is summed to this n (see Builder#alkaliPartition). */
+    static final int ALKALI_PARTITION_N = 500;
 
     /** Natural widths cost an exact decay-rate sum per shell; they are offered up to this n. */
     public static final int MAX_N_WITH_NATURAL_WIDTHS = 60;
@@ -106,9 +126,10 @@ public final class Scene {
 
     /**
      * @param grid the pixels; its axis is wavelength in nm in the medium given to the builder
-     * @return a builder with: temperature 10 000 K, no electron density, velocity 0, vacuum
-     *         axis, ideal instrument, nMax 30, window {@link LineRenderer#DEFAULT_WINDOW},
-     *         10 000 peak counts, no continuum, noise-free
+     * @return a builder with: no temperature (every scene must be given one, {@link
+     *         Builder#temperature}; {@link Builder#build} refuses without), no electron density,
+     *         velocity 0, vacuum axis, ideal instrument, nMax 30, window
+     *         {@link LineRenderer#DEFAULT_WINDOW}, 10 000 peak counts, no continuum, noise-free
      */
     public static Builder builder(PixelGrid grid) {
         return new Builder(Objects.requireNonNull(grid, "grid"));
@@ -367,7 +388,7 @@ public final class Scene {
         private final PixelGrid grid;
         private final List<HydrogenLikeEmitter> ions = new ArrayList<>();
         private final List<Object> lists = new ArrayList<>();   // ListEmitter, AlkaliEmitter, LevelEmitter, RelativeSet or RelativeColumns
-        private double temperature = 10_000;
+        private double temperature = Double.NaN;
         private double electronDensity = Double.NaN;
         private double velocity;
         private double collisional;
@@ -459,9 +480,11 @@ public final class Scene {
         /**
          * A neutral alkali atom: its E1 lines between the quantum-defect model's levels (n &lt;= nMax,
          * l &lt;= 3; {@link AlkaliLines}) near the grid, each with the photon rate
-         * abundance (2 j_u + 1) A exp(-E_u / kT) / U, U summed over the same levels (Boltzmann's
-         * law, optically thin, as for the one-electron ions; no ionisation balance). Labelled
-         * {@code Rb-87 I 5p 2P3/2 - 5s 2S1/2}.
+         * abundance (2 j_u + 1) A exp(-E_u / kT) / U (Boltzmann's law, optically thin, as for the
+         * one-electron ions; no ionisation balance). U is summed over the model's levels (l &lt;= 3)
+         * as the ions' is, never to nMax: with an electron density over the levels below the
+         * Debye-lowered limit (at most n = 500), whose lines alone are drawn; without one in the
+         * Planck-Larkin form. Labelled {@code Rb-87 I 5p 2P3/2 - 5s 2S1/2}.
          *
          * @param atom      the atom
          * @param abundance its number (or number density) of neutral atoms, positive
@@ -541,9 +564,14 @@ public final class Scene {
         /**
          * A line list with relative intensities (a lamp set, say): one emitter per species in it,
          * lines without an intensity left out. When the scene has one-electron ions the intensities
-         * are scaled so the list's strongest line has the photon rate of the strongest ion line as
-         * drawn (with the ions' abundances and, given a density, their Saha balance), so both
-         * show; otherwise they are used as given.
+         * are scaled so the list's strongest line (over the whole list, in the grid or not) has the
+         * photon rate of the ions' strongest line (upper n up to 10, with the ions' abundances,
+         * partition functions and, given a density, their Saha balance) within the list's own span,
+         * its shortest to its longest line with an intensity (H-alpha for a visible lamp list with
+         * hydrogen), or at any wavelength (Lyman-alpha) when none lies in that span. Both scales are
+         * fixed by the scene's emitters, plasma and list, not by the grid, so a list line's ratio to
+         * an ion line is the same in every window (two channels of one instrument agree). Without
+         * ions they are used as given.
          * Labelled {@code Ne I 640.2248 nm air}.
          *
          * @param list   the list, in any wavelength unit and medium
@@ -697,7 +725,10 @@ public final class Scene {
         }
 
         /**
-         * @param n highest upper n and the partition functions' cutoff, 2 .. {@link HydrogenLikeLines#MAX_N}
+         * @param n highest upper n of the one-electron lines drawn, 2 .. {@link HydrogenLikeLines#MAX_N}
+         *          (the partition functions do not depend on it; with an electron density no line
+         *          is drawn from above the lowered ionisation limit, whatever n); also the highest n
+         *          of the alkali atoms' levels and lines
          * @return this builder
          */
         public Builder nMax(int n) {
@@ -787,12 +818,18 @@ public final class Scene {
 
         /**
          * @return the scene, its lines computed
-         * @throws IllegalArgumentException when there are no emitters, or natural widths are
+         * @throws IllegalArgumentException when there are no emitters, no temperature was given
+         *         (every scene needs one: populations and Doppler widths), or natural widths are
          *         asked for beyond {@link #MAX_N_WITH_NATURAL_WIDTHS}
          */
         public Scene build() {
             if (ions.isEmpty() && lists.isEmpty()) {
                 throw new IllegalArgumentException("the scene has no emitters: add a one-electron ion or a line list");
+            }
+            if (Double.isNaN(temperature)) {
+                throw new IllegalArgumentException("the scene has no temperature: call temperature(kelvin) (the"
+                        + " excitation and kinetic temperature in K, for the populations and Doppler widths);"
+                        + " there is no default");
             }
             if (natural && nMax > MAX_N_WITH_NATURAL_WIDTHS && !ions.isEmpty()) {
                 throw new IllegalArgumentException("natural widths are computed up to n = " + MAX_N_WITH_NATURAL_WIDTHS
@@ -826,7 +863,8 @@ public final class Scene {
          * The work {@link #build} spends on the one-electron ions' lines, in the units of
          * {@link HydrogenLikeLines#workUnits} summed over the ions, over the same window: for an
          * estimate of the time before a long build (the exact radial integrals grow about as
-         * n^3.6 at high nMax).
+         * n^3.6 at high nMax). With a temperature and an electron density given, up to the n the
+         * build draws (the last bound level, when below nMax).
          *
          * @return the work units; 0 without one-electron ions
          */
@@ -834,7 +872,10 @@ public final class Scene {
             double[] hertz = ionRestHertz(ionWindowNm(), doppler());
             double units = 0;
             for (HydrogenLikeEmitter ion : ions) {
-                units += HydrogenLikeLines.of(ion.model()).workUnits(nMax, hertz[0], hertz[1], components);
+                int upper = Double.isNaN(temperature) ? nMax : drawnN(ion.model());
+                if (upper >= 2) {
+                    units += HydrogenLikeLines.of(ion.model()).workUnits(upper, hertz[0], hertz[1], components);
+                }
             }
             return units;
         }
@@ -874,10 +915,12 @@ public final class Scene {
                         + " cover those); H-gamma and higher and the He II lines are drawn without");
                 // Inglis and Teller (1939): log10 Ne[cm^-3] = 23.26 - 7.5 log10 n_max (from memory).
                 double merged = Math.pow(10, (23.26 - Math.log10(electronDensity * 1e-6)) / 7.5);
-                if (nMax > merged && ions.stream().anyMatch(ion -> ion.model().nucleus().z() == 1)) {
+                int drawnH = ions.stream().filter(ion -> ion.model().nucleus().z() == 1)
+                        .mapToInt(ion -> drawnN(ion.model())).max().orElse(0);
+                if (drawnH > merged) {
                     notes.add(String.format(java.util.Locale.ROOT, "at this density the Balmer lines above n = %.0f"
                             + " merge into a continuum (Inglis-Teller); they are drawn as separate lines up to"
-                            + " nMax = %d", Math.floor(merged), nMax));
+                            + " n = %d", Math.floor(merged), drawnH));
                 }
             }
             Collected out = new Collected(lo, hi);
@@ -910,7 +953,6 @@ public final class Scene {
         /** The line lists as fixed photon rates, in the order they were added. */
         private List<ListEmitter> resolvedLists(List<String> notes) {
             List<ListEmitter> out = new ArrayList<>();
-            double ionScale = Double.NaN;
             for (Object entry : lists) {
                 if (entry instanceof ListEmitter fixed) {
                     out.add(fixed);
@@ -919,15 +961,9 @@ public final class Scene {
                 } else if (entry instanceof LevelEmitter levels) {
                     out.add(levelLines(levels, notes));
                 } else if (entry instanceof RelativeColumns columns) {
-                    if (Double.isNaN(ionScale)) {
-                        ionScale = strongestIonLine();
-                    }
-                    out.addAll(relativeColumnLines(columns, ionScale));
+                    out.addAll(relativeColumnLines(columns));
                 } else {
-                    if (Double.isNaN(ionScale)) {
-                        ionScale = strongestIonLine();
-                    }
-                    out.addAll(relativeSetLines((RelativeSet) entry, ionScale));
+                    out.addAll(relativeSetLines((RelativeSet) entry));
                 }
             }
             return out;
@@ -940,33 +976,85 @@ public final class Scene {
             double highHz = PhysicalConstants.C / (grid.lowest() * 0.98e-9 * (1 - beta));
             double kT = PhysicalConstants.K * temperature;
             double hcPerCm = PhysicalConstants.H * PhysicalConstants.C * 100;
+            double partition = alkaliPartition(atom);
+            // With a density, levels above the Debye-lowered limit have merged into the continuum.
+            double bound = Double.isNaN(electronDensity) ? Double.POSITIVE_INFINITY : atom.ionisationLimitPerCm()
+                    - IonisationBalance.ionisationLowering(temperature, electronDensity, 1) / hcPerCm;
+            List<AlkaliLines.Line> found = AlkaliLines.window(atom, lowHz, highHz, nMax, 3, 0, f -> { });
+            double[] nm = new double[found.size()];
+            double[] photons = new double[found.size()];
+            String[] labels = new String[found.size()];
+            int n = 0;
+            for (AlkaliLines.Line line : found) {
+                double upper = atom.energyPerCm(line.upper());
+                if (upper >= bound) {
+                    continue;
+                }
+                nm[n] = PhysicalConstants.C / line.frequency() * 1e9;
+                photons[n] = e.abundance() * (line.upper().twoJ() + 1) * line.einsteinA()
+                        * Math.exp(-upper * hcPerCm / kT) / partition;
+                labels[n] = atom.species().notation() + " " + line.label();
+                n++;
+            }
+            String[] kept = Arrays.copyOf(labels, n);
+            return new ListEmitter(atom.species().notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n),
+                    e.massKg(), i -> kept[i]);
+        }
+
+        /**
+         * An alkali atom's partition function over the model's levels (l &lt;= 3), as for the
+         * one-electron ions never cut at nMax: with an electron density, the sum of (2j + 1)
+         * exp(-E / kT) over the levels bound by more than the Debye lowering (z = 1,
+         * {@link IonisationBalance#ionisationLowering}); without one, the Planck-Larkin form
+         * exp(-chi / kT) sum (2j + 1) (exp(I / kT) - 1 - I / kT) over the levels, I their binding
+         * energies (the form of {@link IonisationBalance#planckLarkinPartition} carried over to a
+         * quantum-defect atom, whose divergent part is its hydrogen-like Rydberg tail; our
+         * extension), summed to n = 500, beyond which the terms, falling
+         * as n^-4, add below 1e-9 of it. With a density the sum ends where the s level, the most
+         * bound of its n, is no longer bound, or at n = 500 (densities below about 1e17 m^-3).
+         */
+        private double alkaliPartition(AlkaliAtom atom) {
+            double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100
+                    / (PhysicalConstants.K * temperature);
+            double limit = atom.ionisationLimitPerCm();
+            boolean dense = !Double.isNaN(electronDensity);
+            double lowered = dense ? IonisationBalance.ionisationLowering(temperature, electronDensity, 1)
+                    / (PhysicalConstants.H * PhysicalConstants.C * 100) : 0;
+            double a = limit * hcPerCmOverKt;
             double partition = 0;
-            for (int n = 1; n <= nMax; n++) {
+            for (int n = 1; n <= ALKALI_PARTITION_N; n++) {
+                boolean anyBound = false;
                 for (int l = 0; l <= Math.min(3, n - 1); l++) {
                     for (int twoJ = Math.max(1, 2 * l - 1); twoJ <= 2 * l + 1; twoJ += 2) {
                         if (n < atom.lowestN(l)) {
                             continue;
                         }
+                        double energy;
                         try {
-                            partition += (twoJ + 1) * Math.exp(-atom.energyPerCm(State.of(n, l, twoJ)) * hcPerCm / kT);
+                            energy = atom.energyPerCm(State.of(n, l, twoJ));
                         } catch (RydbergException ex) {
-                            // no energy for it: not in the model, not in the sum
+                            continue;   // no energy for it: not in the model, not in the sum
+                        }
+                        double binding = limit - energy;
+                        if (dense) {
+                            if (binding > lowered) {
+                                anyBound = true;
+                                partition += (twoJ + 1) * Math.exp(-energy * hcPerCmOverKt);
+                            }
+                        } else {
+                            anyBound = true;
+                            double x = binding * hcPerCmOverKt;
+                            double bracket = x < 1e-3 ? x * x * (0.5 + x * (1.0 / 6 + x / 24)) * Math.exp(-a)
+                                    : Math.exp(x - a) - (1 + x) * Math.exp(-a);
+                            partition += (twoJ + 1) * bracket;
                         }
                     }
                 }
+                if (dense && !anyBound && n > atom.lowestN(0)) {
+                    break;   // the s level, the most bound of its n, is unbound: so is everything above
+                }
             }
-            List<AlkaliLines.Line> found = AlkaliLines.window(atom, lowHz, highHz, nMax, 3, 0, f -> { });
-            double[] nm = new double[found.size()];
-            double[] photons = new double[found.size()];
-            String[] labels = new String[found.size()];
-            for (int i = 0; i < found.size(); i++) {
-                AlkaliLines.Line line = found.get(i);
-                nm[i] = PhysicalConstants.C / line.frequency() * 1e9;
-                photons[i] = e.abundance() * (line.upper().twoJ() + 1) * line.einsteinA()
-                        * Math.exp(-atom.energyPerCm(line.upper()) * hcPerCm / kT) / partition;
-                labels[i] = atom.species().notation() + " " + line.label();
-            }
-            return new ListEmitter(atom.species().notation(), nm, photons, e.massKg(), i -> labels[i]);
+            return partition;
         }
 
         /**
@@ -980,6 +1068,8 @@ public final class Scene {
             double lowest = lowest(levels);
             double partition = levelPartition(levels);
             double number = e.abundance() * levelStageFraction(e, partition, notes);
+            double limit = boundLimitPerCm(levels.species());
+            int dissolved = 0;
             double beta = Math.abs(velocity) / PhysicalConstants.C;
             double loNm = grid.lowest() * 0.98 * (1 - beta);
             double hiNm = grid.highest() * 1.02 * (1 + beta);
@@ -994,11 +1084,20 @@ public final class Scene {
                     continue;
                 }
                 int u = lines.upper(i);
+                if (levels.energyPerCm(u) - lowest >= limit) {
+                    dissolved++;
+                    continue;
+                }
                 nm[n] = vacuumNm;
                 photons[n] = number * (levels.designation(u).twoJ() + 1) * lines.einsteinA(i).getAsDouble()
                         * Math.exp(-(levels.energyPerCm(u) - lowest) * hcPerCmOverKt) / partition;
                 labels[n] = prefix + levels.label(u) + " - " + levels.label(lines.lower(i));
                 n++;
+            }
+            if (dissolved > 0) {
+                notes.add(String.format(java.util.Locale.ROOT, "%s: %d line(s) from levels above the ionisation"
+                        + " limit lowered by the plasma (Debye screening, to %.1f cm^-1) are not drawn",
+                        levels.species().notation(), dissolved, limit));
             }
             String[] kept = Arrays.copyOf(labels, n);
             return new ListEmitter(levels.species().notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n),
@@ -1015,17 +1114,34 @@ public final class Scene {
         }
 
         /**
+         * The energy above the lowest level, cm^-1, from which a level list's levels have merged
+         * into the continuum: for neutral helium with an electron density, its ionisation energy
+         * lowered by Debye screening ({@link IonisationBalance#ionisationLowering}, z = 1);
+         * otherwise no limit (infinity), as no ionisation energy is known for the list.
+         */
+        private double boundLimitPerCm(Species species) {
+            if (Double.isNaN(electronDensity) || species.z() != 2 || species.charge() != 0) {
+                return Double.POSITIVE_INFINITY;
+            }
+            return (IonisationBalance.HELIUM_I_IONISATION_ENERGY
+                    - IonisationBalance.ionisationLowering(temperature, electronDensity, 1))
+                    / (PhysicalConstants.H * PhysicalConstants.C * 100);
+        }
+
+        /**
          * The partition function of a level list at the scene's temperature: the sum of
          * (2J + 1) exp(-(E - E_lowest) / kT) over the levels whose J is known (Boltzmann's law,
-         * common practice), cut off at the list's last level.
+         * common practice), up to the list's last level and, for He I with an electron density,
+         * below the lowered ionisation limit ({@link #boundLimitPerCm}).
          */
         private double levelPartition(RitzLevels levels) {
             double hcPerCmOverKt = PhysicalConstants.H * PhysicalConstants.C * 100
                     / (PhysicalConstants.K * temperature);
             double lowest = lowest(levels);
+            double limit = boundLimitPerCm(levels.species());
             double partition = 0;
             for (int i = 0; i < levels.size(); i++) {
-                if (levels.designation(i).hasJ()) {
+                if (levels.designation(i).hasJ() && levels.energyPerCm(i) - lowest < limit) {
                     partition += (levels.designation(i).twoJ() + 1)
                             * Math.exp(-(levels.energyPerCm(i) - lowest) * hcPerCmOverKt);
                 }
@@ -1075,28 +1191,42 @@ public final class Scene {
             if (ion == null) {
                 ion = HydrogenLikeModel.of(e.nucleus(), Tier.DIRAC);
             }
-            return IonisationBalance.helium(ion, temperature, electronDensity, nMax, Math.max(1, partition))[0];
+            return IonisationBalance.helium(ion, temperature, electronDensity, Math.max(1, partition))[0];
         }
 
         /**
-         * The strongest one-electron line's photon rate as the scene draws it (the ions'
-         * abundances and, with a density, their Saha balance), or 0 without ions.
+         * The reference photon rate for a line list with relative intensities whose lines (with an
+         * intensity) span the vacuum wavelengths loNm to hiNm: the strongest one-electron line at
+         * rest in that span (the list's own, not the grid's), upper n up to REFERENCE_N, 10 (and the
+         * drawn n), with the ions' abundances, partition functions and, given a density, their Saha
+         * balance; when no such line lies in the span, the strongest at any wavelength (in practice
+         * Lyman-alpha of the brightest ion). It does not depend on the grid, so a list line's ratio to
+         * an ion line is the same in every window. 0 without ions.
          */
-        private double strongestIonLine() {
-            if (ions.isEmpty()) {
-                return 0;
-            }
-            Builder probe = Scene.builder(grid).medium(medium).nMax(nMax).temperature(temperature);
-            if (!Double.isNaN(electronDensity)) {
-                probe.electronDensity(electronDensity);
-            }
-            for (HydrogenLikeEmitter ion : ions) {
-                probe.hydrogenLike(ion.species(), ion.model(), ion.abundance());
-            }
-            Lines ionLines = probe.build().lines();
+        private double strongestIonLine(double loNm, double hiNm) {
+            double inSpan = strongestIonLine(PhysicalConstants.C / (hiNm * 1e-9), PhysicalConstants.C / (loNm * 1e-9),
+                    true);
+            return inSpan > 0 ? inSpan : strongestIonLine(0, Double.MAX_VALUE, false);
+        }
+
+        private double strongestIonLine(double loHertz, double hiHertz, boolean span) {
             double strongest = 0;
-            for (int i = 0; i < ionLines.size(); i++) {
-                strongest = Math.max(strongest, ionLines.photons(i));
+            double kT = PhysicalConstants.K * temperature;
+            List<String> ignored = new ArrayList<>();   // the same notes come again from the ions' own lines
+            for (HydrogenLikeEmitter ion : ions) {
+                HydrogenLikeModel model = ion.model();
+                int upper = Math.min(REFERENCE_N, drawnN(model));
+                if (upper < 2) {
+                    continue;
+                }
+                double number = ion.abundance() * stageFraction(ion, ignored) / ionPartition(model);
+                double ground = model.energy(1, 0, 1);
+                LineTable table = HydrogenLikeLines.of(model).multiplets(upper, loHertz, hiHertz);
+                for (int i = 0; i < table.size(); i++) {
+                    double photons = number * table.upperWeight(i) * table.einsteinA(i)
+                            * Math.exp(-(model.energy(table.upperN(i), 0, 1) - ground) / kT);
+                    strongest = Math.max(strongest, photons);
+                }
             }
             return strongest;
         }
@@ -1107,7 +1237,7 @@ public final class Scene {
          * does), photon rates and labels, in the same order; each species' lines are kept as
          * indices into the columns and their labels made on demand.
          */
-        private List<ListEmitter> relativeColumnLines(RelativeColumns r, double ionScale) {
+        private List<ListEmitter> relativeColumnLines(RelativeColumns r) {
             LineColumns columns = r.columns();
             int size = columns.size();
             double[] vacuum = new double[size];
@@ -1118,12 +1248,19 @@ public final class Scene {
                 throw new IllegalArgumentException("line list " + columns.id() + ": " + e.getMessage(), e);
             }
             double strongest = 0;
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = 0;
             for (int i = 0; i < size; i++) {
                 double intensity = columns.intensity(i);
                 if (intensity > strongest) {
                     strongest = intensity;
                 }
+                if (intensity > 0) {
+                    lo = Math.min(lo, vacuum[i] * 1e9);
+                    hi = Math.max(hi, vacuum[i] * 1e9);
+                }
             }
+            double ionScale = ions.isEmpty() ? 0 : strongestIonLine(lo, hi);
             double scale = ionScale > 0 ? ionScale / strongest : 1;
             String suffix = " " + columns.unit().symbol() + (columns.medium() == null ? "" : " "
                     + columns.medium().label());
@@ -1159,12 +1296,20 @@ public final class Scene {
         }
 
         /** A line set with relative intensities: one emitter per species, lines with an intensity, scaled. */
-        private List<ListEmitter> relativeSetLines(RelativeSet r, double ionScale) {
+        private List<ListEmitter> relativeSetLines(RelativeSet r) {
             LineSet set = r.set();
             double strongest = 0;
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = 0;
             for (int i = 0; i < set.size(); i++) {
-                strongest = Math.max(strongest, set.relativeIntensity(i).orElse(0));
+                double intensity = set.relativeIntensity(i).orElse(0);
+                strongest = Math.max(strongest, intensity);
+                if (intensity > 0) {
+                    lo = Math.min(lo, set.vacuumWavelengthNm(i));
+                    hi = Math.max(hi, set.vacuumWavelengthNm(i));
+                }
             }
+            double ionScale = ions.isEmpty() ? 0 : strongestIonLine(lo, hi);
             double scale = ionScale > 0 ? ionScale / strongest : 1;
             List<ListEmitter> out = new ArrayList<>();
             for (Species species : set.speciesList()) {
@@ -1215,12 +1360,29 @@ public final class Scene {
             HydrogenLikeModel model = ion.model;
             double kT = PhysicalConstants.K * temperature;
             double ground = model.energy(1, 0, 1);
-            double partition = IonisationBalance.hydrogenLikePartition(model, temperature, nMax);
+            double partition = ionPartition(model);
+            if (Double.isNaN(electronDensity) && partition < 2) {
+                notes.add(String.format(java.util.Locale.ROOT, "%s: without an electron density its partition"
+                        + " function (Planck-Larkin) is %.4g at %.0f K, below its ground level's weight 2: so hot a"
+                        + " gas keeps this stage bound only where a density holds it; give an electron density",
+                        ion.species.notation(), partition, temperature));
+            }
             double number = ion.abundance * stageFraction(ion, notes);
             double[] hertz = ionRestHertz(windowNm, doppler);
             HydrogenLikeLines source = HydrogenLikeLines.of(model);
-            LineTable table = components ? source.components(nMax, hertz[0], hertz[1])
-                    : source.multiplets(nMax, hertz[0], hertz[1]);
+            int drawn = drawnN(model);
+            if (drawn < nMax) {
+                notes.add(String.format(java.util.Locale.ROOT, "%s: levels above n = %d lie above the ionisation"
+                        + " limit lowered by the plasma (Debye screening, by %.3g eV); their lines are not drawn"
+                        + " (nMax %d)", ion.species.notation(), drawn,
+                        IonisationBalance.ionisationLowering(temperature, electronDensity, model.nucleus().z())
+                                / PhysicalConstants.E, nMax));
+            }
+            if (drawn < 2) {
+                return;
+            }
+            LineTable table = components ? source.components(drawn, hertz[0], hertz[1])
+                    : source.multiplets(drawn, hertz[0], hertz[1]);
             double mass = model.nucleus().massKg() + PhysicalConstants.ELECTRON_MASS.value();
             double[] shellRate = natural ? new double[nMax + 1] : null;
             for (int i = 0; i < table.size(); i++) {
@@ -1251,14 +1413,31 @@ public final class Scene {
             }
         }
 
+        /**
+         * A one-electron ion's partition function: over its levels below the lowered ionisation
+         * limit with an electron density, Planck-Larkin's without; never nMax's.
+         */
+        private double ionPartition(HydrogenLikeModel model) {
+            return Double.isNaN(electronDensity) ? IonisationBalance.planckLarkinPartition(model, temperature)
+                    : IonisationBalance.boundPartition(model, temperature, electronDensity);
+        }
+
+        /** The highest upper n drawn: nMax, or lower where the plasma's lowered limit ends the levels. */
+        private int drawnN(HydrogenLikeModel model) {
+            if (Double.isNaN(electronDensity)) {
+                return nMax;
+            }
+            return Math.min(nMax, IonisationBalance.highestBoundN(model, temperature, electronDensity));
+        }
+
         /** The Saha fraction of the ion's stage, or 1 when there is no density or no balance for it. */
         private double stageFraction(HydrogenLikeEmitter ion, List<String> notes) {
             if (Double.isNaN(electronDensity)) {
                 return 1;
             }
             return switch (ion.model.nucleus().z()) {
-                case 1 -> IonisationBalance.hydrogen(ion.model, temperature, electronDensity, nMax)[0];
-                case 2 -> IonisationBalance.helium(ion.model, temperature, electronDensity, nMax,
+                case 1 -> IonisationBalance.hydrogen(ion.model, temperature, electronDensity)[0];
+                case 2 -> IonisationBalance.helium(ion.model, temperature, electronDensity,
                         heliumNeutralPartition(ion.model.nucleus()))[1];
                 default -> {
                     notes.add(ion.species.notation() + ": no ionisation balance for Z = " + ion.model.nucleus().z()

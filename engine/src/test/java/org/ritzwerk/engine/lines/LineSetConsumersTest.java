@@ -174,9 +174,10 @@ class LineSetConsumersTest {
     void sceneLinesFromALineSetMatchTheListPath() {
         LineList neon = Sources.neonInAir();
         PixelGrid grid = PixelGrid.linear(580, 650, 700);
-        Scene.Lines fromList = Scene.builder(grid).medium(Medium.air()).lineList(neon, NUCLEI).build().lines();
-        Scene.Lines fromSet = Scene.builder(grid).medium(Medium.air()).lineSet(LineSet.of(neon), NUCLEI).build()
+        Scene.Lines fromList = Scene.builder(grid).medium(Medium.air()).temperature(300).lineList(neon, NUCLEI).build()
                 .lines();
+        Scene.Lines fromSet = Scene.builder(grid).medium(Medium.air()).temperature(300)
+                .lineSet(LineSet.of(neon), NUCLEI).build().lines();
         assertEquals(fromList.size(), fromSet.size());
         for (int i = 0; i < fromList.size(); i++) {
             // Source: Scene.Builder.lineList on the same list.

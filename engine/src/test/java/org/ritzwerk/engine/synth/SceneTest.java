@@ -212,7 +212,8 @@ class SceneTest {
 
     @Test
     void autoKeepsSmallScenesOnTheExactRenderer() {
-        Scene scene = Scene.builder(PixelGrid.linear(400, 700, 4000)).hydrogenLike(Species.parse("H I"), H, 1).build();
+        Scene scene = Scene.builder(PixelGrid.linear(400, 700, 4000)).hydrogenLike(Species.parse("H I"), H, 1)
+                .temperature(10_000).build();
         assertFalse(scene.usesFastRenderer());
         assertTrue(scene.lines().size() * 4000.0 < Renderer.AUTO_THRESHOLD);
     }
@@ -236,27 +237,46 @@ class SceneTest {
     @Test
     void sahaWeightsTheStagesOfEachElement() {
         // With an electron density the H I and He II line rates carry their Saha fractions.
-        PixelGrid grid = PixelGrid.linear(400, 700, 1000);
+        PixelGrid grid = PixelGrid.linear(360, 700, 1000);   // the Balmer lines from n = 33 to 40 near 365 nm
         double t = 25_000;
         double ne = 1e22;
         Scene withDensity = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1)
-                .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(t).electronDensity(ne).build();
+                .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(t).electronDensity(ne).nMax(40).build();
         Scene without = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1)
-                .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(t).build();
-        double hI = IonisationBalance.hydrogen(H, t, ne, 30)[0];
-        double heII = IonisationBalance.helium(HE_II, t, ne, 30)[1];
+                .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(t).nMax(40).build();
+        double hI = IonisationBalance.hydrogen(H, t, ne)[0];
+        double heII = IonisationBalance.helium(HE_II, t, ne)[1];
+        // Without a density U is Planck-Larkin's, with one it is summed over the bound levels
+        // (changed 2026-12-05: both were the sum to nMax, so the ratio was the fraction alone).
+        double hU = IonisationBalance.planckLarkinPartition(H, t) / IonisationBalance.boundPartition(H, t, ne);
+        double heU = IonisationBalance.planckLarkinPartition(HE_II, t)
+                / IonisationBalance.boundPartition(HE_II, t, ne);
+        int lastH = IonisationBalance.highestBoundN(H, t, ne);
+        // dChi = 0.0132 eV at 25,000 K and 1e22 m^-3 (1.44 eV nm / lambda_D, lambda_D = 109 nm):
+        // 13.6 eV / 32^2 > dChi > 13.6 eV / 33^2.
+        assertEquals(32, lastH);
         // The Stark widths widen the reach, so the dense scene may hold more lines beyond the ends.
         java.util.Map<String, Double> dense = new java.util.HashMap<>();
         for (int i = 0; i < withDensity.lines().size(); i++) {
             dense.put(withDensity.lines().label(i), withDensity.lines().photons(i));
         }
         assertTrue(without.lines().size() > 10);
+        int dissolved = 0;
         for (int i = 0; i < without.lines().size(); i++) {
             String label = without.lines().label(i);
-            double fraction = label.startsWith("He II") ? heII : hI;
+            if (!dense.containsKey(label)) {
+                // Only H I lines from n = 33 to 40, above the lowered limit, are left out.
+                assertTrue(label.startsWith("H I"), label);
+                dissolved++;
+                continue;
+            }
+            double fraction = label.startsWith("He II") ? heII * heU : hI * hU;
             assertEquals(without.lines().photons(i) * fraction, dense.get(label),
                     1e-12 * without.lines().photons(i), label);
         }
+        assertTrue(dissolved > 0);
+        assertTrue(withDensity.notes().stream().anyMatch(n -> n.startsWith("H I: levels above n = 32 lie above the"
+                + " ionisation limit lowered by the plasma")), withDensity.notes().toString());
     }
 
     @Test
@@ -324,7 +344,7 @@ class SceneTest {
                 .lineList("Ne I", new double[] {500, -1}, new double[] {1, 1}, 3e-26));
         assertTrue(e.getMessage().contains("Ne I line 1"), e.getMessage());
         SceneException dark = assertThrows(SceneException.class, () -> Scene.builder(PixelGrid.linear(2000, 2100, 10))
-                .hydrogenLike(Species.parse("H I"), H, 1).nMax(3).build().render(1));
+                .hydrogenLike(Species.parse("H I"), H, 1).temperature(10_000).nMax(3).build().render(1));
         assertEquals(SceneException.NO_LIGHT, dark.code());
         assertTrue(dark.getMessage().contains("no line falls"), dark.getMessage());
         // H-alpha lies in the grid, but at 30 K no atom is in n = 3: the message says which it is.
@@ -334,14 +354,159 @@ class SceneTest {
         assertTrue(cold.getMessage().startsWith("1 line falls on the grid from 640.0 to 660.0 nm, but none carries any"
                 + " light"), cold.getMessage());
         e = assertThrows(IllegalArgumentException.class, () -> Scene.builder(grid)
-                .hydrogenLike(Species.parse("H I"), H, 1).naturalWidths(true).nMax(100).build());
+                .hydrogenLike(Species.parse("H I"), H, 1).temperature(10_000).naturalWidths(true).nMax(100).build());
         assertTrue(e.getMessage().contains("natural widths"), e.getMessage());
+    }
+
+    /**
+     * The review found a scene without a temperature rendered at 10,000 K, silently. Every scene
+     * needs one (populations and Doppler widths, line lists included), so build() refuses, naming it.
+     */
+    @Test
+    void aSceneWithoutATemperatureIsRefusedNamingIt() {
+        PixelGrid grid = PixelGrid.linear(400, 700, 100);
+        for (Scene.Builder b : new Scene.Builder[] {Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1),
+            Scene.builder(grid).lineList("Xx I", new double[] {500}, new double[] {1}, 3e-26)}) {
+            IllegalArgumentException e = assertThrows(IllegalArgumentException.class, b::build);
+            assertTrue(e.getMessage().contains("no temperature") && e.getMessage().contains("temperature(kelvin)"),
+                    e.getMessage());
+            b.temperature(10_000);
+            assertTrue(b.build().lines().size() > 0, "given one, it builds");
+        }
+    }
+
+    /**
+     * The review's scene (H I and He II, 380-700 nm, 20,000 K): H-alpha / He II 468.6 was
+     * 9.42e8, 2.40e8 and 3.28e5 for nMax 10, 30 and 300, and with 1e22 m^-3 6.73e6 and 4.81e5 for
+     * nMax 30 and 300, because U was summed to nMax. The drawing cutoff must not change the
+     * physics: now the ratio is the same for every nMax, with a density and without.
+     */
+    @Test
+    void theRatioOfTwoSpeciesLinesDoesNotDependOnNMax() {
+        PixelGrid grid = PixelGrid.linear(380, 700, 2000);
+        for (double ne : new double[] {Double.NaN, 1e22}) {
+            double first = Double.NaN;
+            for (int nMax : Double.isNaN(ne) ? new int[] {10, 30, 120} : new int[] {10, 30, 300}) {
+                Scene.Builder b = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1)
+                        .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(20_000).nMax(nMax);
+                if (!Double.isNaN(ne)) {
+                    b.electronDensity(ne);
+                }
+                if (!Double.isNaN(ne) && nMax == 300) {
+                    // The build's work estimate (for the command's long-build warning) stops at the
+                    // last bound level too: the same as for nMax 42 (H I ends at 30, He II at 42).
+                    double bound = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1)
+                            .hydrogenLike(Species.parse("He II"), HE_II, 1).temperature(20_000).electronDensity(ne)
+                            .nMax(42).ionLineWorkUnits();
+                    assertEquals(bound, b.ionLineWorkUnits(), 0.0);
+                }
+                Scene.Lines lines = b.build().lines();
+                double ratio = photonsNear(lines, "H I", 656.47) / photonsNear(lines, "He II", 468.70);
+                if (Double.isNaN(first)) {
+                    first = ratio;
+                }
+                assertEquals(first, ratio, 1e-12 * first, "ne " + ne + ", nMax " + nMax);
+            }
+        }
+    }
+
+    /**
+     * Alkali atoms had the same fault: U summed over the model's levels to nMax. Rb at 6000 K beside
+     * H I: the ratio of Rb's D2 line to H-alpha is now the same for nMax 20 and 80, with a density
+     * and without (the old sum grew by about 32 exp(-chi / kT) = 0.01 per n there).
+     */
+    @Test
+    void anAlkaliAtomsLinesDoNotDependOnNMaxEither() {
+        org.ritzwerk.engine.rydberg.AlkaliAtom rb = org.ritzwerk.engine.rydberg.TestAtoms.rubidium();
+        // Rb-87 mass 86.909 u (from memory), for the Doppler width only.
+        Nucleus rb87 = new Nucleus(37, 87, 86.909 * PhysicalConstants.ATOMIC_MASS_CONSTANT.value(), 3,
+                OptionalDouble.empty(), OptionalDouble.empty(), "test");
+        PixelGrid grid = PixelGrid.linear(640, 800, 2000);
+        for (double ne : new double[] {Double.NaN, 1e22}) {
+            double first = Double.NaN;
+            for (int nMax : new int[] {20, 80}) {
+                Scene.Builder b = Scene.builder(grid).hydrogenLike(Species.parse("H I"), H, 1).alkali(rb, 1, rb87)
+                        .temperature(6000).nMax(nMax);
+                if (!Double.isNaN(ne)) {
+                    b.electronDensity(ne);
+                }
+                Scene.Lines lines = b.build().lines();
+                double ratio = photonsNear(lines, rb.species().notation(), 780.24) / photonsNear(lines, "H I", 656.47);
+                if (Double.isNaN(first)) {
+                    first = ratio;
+                }
+                assertEquals(first, ratio, 1e-12 * first, "ne " + ne + ", nMax " + nMax);
+            }
+        }
+    }
+
+    /** The photon rate of the line of a species nearest a vacuum wavelength (within 0.1 nm). */
+    private static double photonsNear(Scene.Lines lines, String species, double vacuumNm) {
+        int best = -1;
+        for (int i = 0; i < lines.size(); i++) {
+            double off = Math.abs(lines.position(i) - vacuumNm);
+            if (lines.label(i).startsWith(species + " ") && off < 0.1
+                    && (best < 0 || off < Math.abs(lines.position(best) - vacuumNm))) {
+                best = i;
+            }
+        }
+        assertTrue(best >= 0, species + " near " + vacuumNm);
+        return lines.photons(best);
+    }
+
+    /**
+     * Without a density, at a temperature where the Planck-Larkin sum falls below the ground
+     * level's weight (H near 50,000 K: 1.963 by planck-larkin.csv), a note says that a one-electron
+     * stage without a density is not meaningful there.
+     */
+    @Test
+    void aHotSceneWithoutADensityIsNoted() {
+        Scene hot = Scene.builder(PixelGrid.linear(400, 700, 100)).hydrogenLike(Species.parse("H I"), H, 1)
+                .temperature(50_000).build();
+        assertTrue(hot.notes().stream().anyMatch(n -> n.startsWith("H I: without an electron density")),
+                hot.notes().toString());
+        Scene warm = Scene.builder(PixelGrid.linear(400, 700, 100)).hydrogenLike(Species.parse("H I"), H, 1)
+                .temperature(20_000).build();
+        assertTrue(warm.notes().isEmpty(), warm.notes().toString());
+    }
+
+    /**
+     * The review: a lamp list's lines against H-beta changed by 6.9 times between a 430-500 nm
+     * and a 430-660 nm window of the same scene, the list being scaled by its strongest line
+     * anywhere and the ions by theirs in the window. Now both scales are fixed by the scene, so
+     * two windows (two channels of one instrument) give the same ratio of two lines in both.
+     */
+    @Test
+    void aListLinesRatioToAnIonLineIsTheSameInEveryWindow() {
+        Species ne = Species.parse("Ne I");
+        // Invented intensities: the list's strongest line (640.2 nm) lies only in the wider window.
+        org.ritzwerk.data.LineList lamp = org.ritzwerk.data.LineList.builder(new org.ritzwerk.data.DataSetInfo(
+                "test-lamp", org.ritzwerk.data.DataKind.LAMP_LINES, "test lamp", "1",
+                org.ritzwerk.data.Provenance.fromMemory("test"), java.util.List.of(ne)),
+                org.ritzwerk.quantity.Unit.NANOMETRE, Medium.air(), "")
+                .add(ne, 470.886, Double.NaN, 50, null, Double.NaN, null, null, null)
+                .add(ne, 640.2248, Double.NaN, 1000, null, Double.NaN, null, null, null)
+                .build();
+        // Ne-20 mass 19.992 u (from memory), for the Doppler width only.
+        Nucleus neon = new Nucleus(10, 20, 19.992 * PhysicalConstants.ATOMIC_MASS_CONSTANT.value(), 0,
+                OptionalDouble.empty(), OptionalDouble.empty(), "test");
+        double[] ratios = new double[2];
+        double[] to = {500, 660};
+        for (int w = 0; w < 2; w++) {
+            Scene scene = Scene.builder(PixelGrid.linear(430, to[w], 2000)).medium(Medium.air())
+                    .hydrogenLike(Species.parse("H I"), H, 1).lineList(lamp, s -> neon).temperature(9000).build();
+            ratios[w] = photonsNear(scene.lines(), "Ne I", 470.886) / photonsNear(scene.lines(), "H I", 486.13);
+        }
+        assertEquals(ratios[0], ratios[1], 1e-12 * ratios[0]);
+        // The list's strongest line (1000) carries H-beta's photons, the strongest H I line in the
+        // list's span (470.9 to 640.2 nm: H-alpha lies beyond), so 470.886 nm has 50 / 1000 of them.
+        assertEquals(0.05, ratios[0], 1e-12);
     }
 
     @Test
     void aDensityBelowTheStarkFitIsNoted() {
         Scene scene = Scene.builder(PixelGrid.linear(400, 700, 100)).hydrogenLike(Species.parse("H I"), H, 1)
-                .electronDensity(1e18).build();
+                .temperature(10_000).electronDensity(1e18).build();
         assertEquals(1, scene.notes().size());
         assertTrue(scene.notes().get(0).contains("Stark widths are left out"), scene.notes().get(0));
     }
