@@ -337,18 +337,17 @@ final class SynthCommand implements Callable<Integer> {
                     + " no light: " + darkReason());
         }
         spec.commandLine().getErr().flush();
-        Medium axis = AxisMedium.of(medium);
         Map<String, Object> description = description();
         OutputFiles.TextContent spectrumText = format.equals("json")
-                ? w -> SyntheticSpectrumFiles.writeJson(spectrum, axis, gridName(), description, scene.notes(), w)
-                : w -> SyntheticSpectrumFiles.writeCsv(spectrum, axis, gridName(), description, w);
+                ? w -> SyntheticSpectrumFiles.writeJson(spectrum, gridName(), description, scene.notes(), w)
+                : w -> SyntheticSpectrumFiles.writeCsv(spectrum, gridName(), description, w);
         // Every file is written to a temporary file beside it and moved into place only at the end.
         try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
             if (out != null) {
                 batch.text(out, spectrumText);
             }
             if (truth != null) {
-                batch.text(truth, w -> SpectrumLineFiles.writeCsv(spectrum, axis, w));
+                batch.text(truth, w -> SpectrumLineFiles.writeCsv(spectrum, w));
             }
             if (plot != null) {
                 drawPlot(batch, spectrum);

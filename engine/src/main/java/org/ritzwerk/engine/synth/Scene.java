@@ -76,6 +76,7 @@ public final class Scene {
     public static final int MAX_N_WITH_NATURAL_WIDTHS = 60;
 
     private final PixelGrid grid;
+    private final Medium medium;
     private final Instrument instrument;
     private final double window;
     private final Renderer renderer;
@@ -90,6 +91,7 @@ public final class Scene {
 
     private Scene(Builder b) {
         this.grid = b.grid;
+        this.medium = b.medium;
         this.instrument = b.instrument;
         this.window = b.window;
         this.renderer = b.renderer;
@@ -210,7 +212,8 @@ public final class Scene {
         for (int i = 0; i < lineCounts.length; i++) {
             lineCounts[i] = lines.photons[i] * scale;
         }
-        return new SyntheticSpectrum(grid, expected, counts, lines, lineCounts, lineCountsInPixels(scale, fast));
+        return new SyntheticSpectrum(grid, medium, expected, counts, lines, lineCounts,
+                lineCountsInPixels(scale, fast));
     }
 
     /**
