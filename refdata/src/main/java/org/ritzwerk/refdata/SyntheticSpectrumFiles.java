@@ -34,8 +34,8 @@ import tools.jackson.databind.json.JsonMapper;
  * ({@code quantity}, {@code unit}, {@code medium}, {@code grid}), {@code scene} (the description,
  * numbers and booleans as JSON numbers and booleans), {@code notes}, {@code pixel_edges_nm} (one
  * more than pixels), {@code wavelength_nm}, {@code expected_counts}, {@code counts} and
- * {@code lines} (objects with {@code wavelength_nm}, {@code counts}, {@code doppler_fwhm_nm},
- * {@code lorentz_fwhm_nm}, {@code line}, as in {@link SpectrumLineFiles}). {@link #readJson}
+ * {@code lines} (objects with {@code wavelength_nm}, {@code counts}, {@code counts_in_pixels},
+ * {@code doppler_fwhm_nm}, {@code lorentz_fwhm_nm}, {@code line}, as in {@link SpectrumLineFiles}). {@link #readJson}
  * reads it all back.
  *
  * <p>Every number is written as the shortest decimal that reads back as the same double
