@@ -491,8 +491,9 @@ final class SynthCommand implements Callable<Integer> {
                 }
             }
             if (!bare.isEmpty()) {
-                spec.commandLine().getErr().println("note: " + String.join(" and ", bare) + " name" + (bare.size() == 1
-                        ? "s" : "") + " no medium and " + (bare.size() == 1 ? "is" : "are") + " read as vacuum (as every"
+                boolean one = bare.size() == 1;
+                spec.commandLine().getErr().println("note: " + String.join(" and ", bare) + (one ? " names" : " name")
+                        + " no medium and " + (one ? "is" : "are") + " read as vacuum (as every"
                         + " wavelength without one): the air axis runs from " + fmt(Math.min(oneEnd, otherEnd))
                         + " to " + fmt(Math.max(oneEnd, otherEnd)) + " nm air; write e.g. \"" + bare.get(0).strip()
                         + " air\" for an air wavelength");

@@ -262,7 +262,8 @@ public final class SyntheticSpectrumFiles {
             edge = linearEdges(first, last, n);
         } else if (kind.equals("log")) {
             if (!(first > 0 && last > 0)) {
-                throw new IllegalArgumentException("grid kind 'log' needs positive edges, got " + first + " to " + last);
+                throw new IllegalArgumentException("grid kind 'log' needs positive edges, got " + first + " to "
+                        + last);
             }
             edge = logEdges(first, last, n);
         } else if (kind.startsWith("dispersion ")) {

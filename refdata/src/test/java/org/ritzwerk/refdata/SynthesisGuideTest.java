@@ -96,7 +96,7 @@ class SynthesisGuideTest {
         // --- README: write a synthetic spectrum and its truth (temporary file, renamed when complete), read back ---
         Map<String, Object> description = Map.of("species", "H I", "temperature-k", 8000.0);
         OutputFiles.writeText(spectrumFile,
-                out -> SyntheticSpectrumFiles.writeCsv(spectrum, "linear", description, out));  // axis medium: the scene's
+                out -> SyntheticSpectrumFiles.writeCsv(spectrum, "linear", description, out));  // medium: the scene's
         OutputFiles.writeText(truthFile, out -> SpectrumLineFiles.writeCsv(spectrum, out));
         SpectrumFiles.Spectrum back = SpectrumFiles.read(spectrumFile);          // counts, expected counts, header
         SpectrumLineFiles.SpectrumLines truth = SpectrumLineFiles.read(truthFile);  // the lines that went in
@@ -139,8 +139,8 @@ class SynthesisGuideTest {
         StringWriter out = new StringWriter();
         IllegalArgumentException linear = assertThrows(IllegalArgumentException.class,
                 () -> SyntheticSpectrumFiles.writeCsv(vacuum, "linear", Map.of(), out));
-        assertTrue(linear.getMessage().startsWith("grid kind 'linear' does not describe the spectrum's pixels: edge 1 is"
-                + " at ") && linear.getMessage().contains("(the grid is log)"), linear.getMessage());
+        assertTrue(linear.getMessage().startsWith("grid kind 'linear' does not describe the spectrum's pixels:"
+                + " edge 1 is at ") && linear.getMessage().contains("(the grid is log)"), linear.getMessage());
         assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeJson(vacuum,
                 "dispersion 650,0.1", Map.of(), java.util.List.of(), out));
         assertEquals("", out.toString(), "nothing written");
