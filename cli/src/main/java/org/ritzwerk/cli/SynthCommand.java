@@ -45,7 +45,8 @@ import picocli.CommandLine.Spec;
                 + "lines of alkali atoms, and line lists with --lines), upper levels populated by "
                 + "Boltzmann's law at --temperature (which also sets the Doppler width), seen through a "
                 + "Gaussian instrument of --resolving-power, integrated over each pixel, scaled so the "
-                + "brightest pixel expects --peak-counts, then given Poisson and read noise from --seed. "
+                + "lines' brightest pixel expects --peak-counts (a continuum is added on top), then given Poisson "
+                + "and read noise from --seed. "
                 + "Writes a ritzwerk-spectrum CSV; --truth also writes the lines that went in.",
         footer = {"", "Examples:",
             "  ritzwerk synth --species \"H I\" --from \"640 nm air\" --to \"670 nm air\" --temperature 9000",
@@ -118,7 +119,9 @@ final class SynthCommand implements Callable<Integer> {
     int nMax;
 
     @Option(names = "--peak-counts", paramLabel = "COUNTS", defaultValue = "10000",
-            description = "Expected counts in the brightest pixel, before noise. Default: ${DEFAULT-VALUE}.")
+            description = "Expected counts in the brightest pixel of the lines alone, before noise; a continuum is "
+                    + "added on top (its own brightest pixel at --continuum-counts), so a pixel may exceed it. "
+                    + "Default: ${DEFAULT-VALUE}.")
     double peakCounts;
 
     @Option(names = "--read-noise", paramLabel = "COUNTS", defaultValue = "0",
@@ -311,12 +314,12 @@ final class SynthCommand implements Callable<Integer> {
                     "synth: rendering " + scene.lines().size() + " lines onto " + grid.pixels() + " pixels"));
         } catch (SceneException e) {
             if (e.code().equals(SceneException.NO_LIGHT)) {
-                int[] dark = darkLines(scene.lines(), grid);
                 String range = dispersion == null ? from + " and " + to : fmt(spectrumEdge(0)) + " nm and "
                         + fmt(spectrumEdge(1)) + " nm";
-                if (dark[0] > 0) {
-                    throw new OptionException(dark[0] + " line(s) of " + emitters() + " fall between " + range
-                            + ", but none carries any light: " + darkReason(), e);
+                List<String> unlit = unlit(scene.lines(), grid, null);
+                if (!unlit.isEmpty()) {
+                    throw new OptionException(inside(scene.lines(), grid) + " line(s) of " + emitters() + " fall"
+                            + " between " + range + ", but none carries any light: " + String.join("; ", unlit), e);
                 }
                 throw new OptionException("no line of " + emitters() + " falls between " + range
                         + (ions.species.isEmpty() ? "; widen the range (a line list brings only its own lines)"
@@ -331,24 +334,21 @@ final class SynthCommand implements Callable<Integer> {
             spec.commandLine().getErr().println("note: the noise is drawn from the default --seed " + seed
                     + "; spectra made without --seed share their noise, so give each its own seed");
         }
-        int[] dark = darkLines(scene.lines(), grid);
-        if (dark[1] > 0) {
-            spec.commandLine().getErr().println("note: " + dark[1] + " of the " + dark[0] + " lines inside the range carry"
-                    + " no light: " + darkReason());
+        for (String unlit : unlit(scene.lines(), grid, spectrum)) {
+            spec.commandLine().getErr().println("note: " + unlit);
         }
         spec.commandLine().getErr().flush();
-        Medium axis = AxisMedium.of(medium);
         Map<String, Object> description = description();
         OutputFiles.TextContent spectrumText = format.equals("json")
-                ? w -> SyntheticSpectrumFiles.writeJson(spectrum, axis, gridName(), description, scene.notes(), w)
-                : w -> SyntheticSpectrumFiles.writeCsv(spectrum, axis, gridName(), description, w);
+                ? w -> SyntheticSpectrumFiles.writeJson(spectrum, gridName(), description, scene.notes(), w)
+                : w -> SyntheticSpectrumFiles.writeCsv(spectrum, gridName(), description, w);
         // Every file is written to a temporary file beside it and moved into place only at the end.
         try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
             if (out != null) {
                 batch.text(out, spectrumText);
             }
             if (truth != null) {
-                batch.text(truth, w -> SpectrumLineFiles.writeCsv(spectrum, axis, w));
+                batch.text(truth, w -> SpectrumLineFiles.writeCsv(spectrum, w));
             }
             if (plot != null) {
                 drawPlot(batch, spectrum);
@@ -442,11 +442,15 @@ final class SynthCommand implements Callable<Integer> {
 
     private PixelGrid grid(Medium axisMedium) {
         if (dispersion != null) {
-            if (from != null || to != null) {
-                throw new OptionException("give --dispersion or --from/--to, not both");
+            boolean range = from != null || to != null;
+            boolean spacing = new OptionRules(spec).given("--grid");
+            String gridUnused = "--grid does not apply with --dispersion (its polynomial places the pixels)";
+            if (range) {
+                throw new OptionException("give --dispersion or --from/--to, not both" + (spacing ? "; " + gridUnused
+                        : ""));
             }
-            if (!gridKind.equals("linear")) {
-                throw new OptionException("--grid does not apply with --dispersion");
+            if (spacing) {
+                throw new OptionException(gridUnused);
             }
             String[] cells = dispersion.split(",");
             double[] c = new double[cells.length];
@@ -476,6 +480,25 @@ final class SynthCommand implements Callable<Integer> {
         }
         double oneEnd = AxisMedium.nanometres("--from", from, axisMedium);
         double otherEnd = AxisMedium.nanometres("--to", to, axisMedium);
+        if (!axisMedium.equals(Medium.vacuum()) && !noted) {
+            noted = true;
+            List<String> bare = new ArrayList<>();
+            for (String end : List.of(from, to)) {
+                String text = end.toLowerCase(Locale.ROOT);
+                if (AxisMedium.spectral("--from", end) instanceof org.ritzwerk.quantity.Wavelength
+                        && !text.contains("air") && !text.contains("vac")) {
+                    bare.add(end);
+                }
+            }
+            if (!bare.isEmpty()) {
+                boolean one = bare.size() == 1;
+                spec.commandLine().getErr().println("note: " + String.join(" and ", bare) + (one ? " names" : " name")
+                        + " no medium and " + (one ? "is" : "are") + " read as vacuum (as every"
+                        + " wavelength without one): the air axis runs from " + fmt(Math.min(oneEnd, otherEnd))
+                        + " to " + fmt(Math.max(oneEnd, otherEnd)) + " nm air; write e.g. \"" + bare.get(0).strip()
+                        + " air\" for an air wavelength");
+            }
+        }
         double lo = Math.min(oneEnd, otherEnd);
         double hi = Math.max(oneEnd, otherEnd);
         if (!(hi > lo)) {
@@ -488,32 +511,61 @@ final class SynthCommand implements Callable<Integer> {
         };
     }
 
-    /**
-     * @return {lines inside the grid, of those the ones with a photon rate of exactly 0}
-     */
-    private static int[] darkLines(Scene.Lines lines, PixelGrid grid) {
-        double lo = grid.lowest();
-        double hi = grid.highest();
+    /** @return the number of lines between the grid's ends */
+    private static int inside(Scene.Lines lines, PixelGrid grid) {
         int inside = 0;
-        int dark = 0;
         for (int i = 0; i < lines.size(); i++) {
-            if (lines.position(i) >= lo && lines.position(i) <= hi) {
-                inside++;
-                if (lines.photons(i) == 0) {
-                    dark++;
-                }
-            }
+            inside += lines.position(i) >= grid.lowest() && lines.position(i) <= grid.highest() ? 1 : 0;
         }
-        return new int[] {inside, dark};
+        return inside;
     }
 
-    /** Why a line inside the range can carry no light, in the options' words. */
-    private String darkReason() {
-        String populations = "at --temperature " + OptionRules.show(temperature) + " K the Boltzmann populations of"
-                + " their upper levels, exp(-E / kT), are below the smallest number a double holds (about 1e-308)"
-                + (electronDensity == null ? "" : ", or the ionisation balance at --electron-density leaves no emitters")
-                + "; raise --temperature";
-        return lineSets.isEmpty() ? populations : populations + ", or give --lines entries an intensity above 0";
+    /**
+     * The lines between the grid's ends that carry no light, one sentence per cause, naming how
+     * many and the first three: a --lines entry of intensity 0; a --lines entry too faint beside
+     * the brightest line for its counts to be held by a double; a line whose population the
+     * scene computed (Boltzmann, Saha) too small to be held.
+     *
+     * @param spectrum the rendered spectrum (its line counts say which lines came out dark), or
+     *                 null before rendering (then the photon rates say it)
+     */
+    private List<String> unlit(Scene.Lines lines, PixelGrid grid, SyntheticSpectrum spectrum) {
+        int inside = inside(lines, grid);
+        List<List<String>> kinds = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        int[] count = new int[3];
+        for (int i = 0; i < lines.size(); i++) {
+            if (!(lines.position(i) >= grid.lowest() && lines.position(i) <= grid.highest())) {
+                continue;
+            }
+            boolean dark = spectrum == null ? lines.photons(i) == 0 : spectrum.lineCounts(i) == 0;
+            if (!dark) {
+                continue;
+            }
+            int kind = !lines.intensityGiven(i) ? 2 : lines.photons(i) == 0 ? 0 : 1;
+            count[kind]++;
+            if (kinds.get(kind).size() < 3) {
+                kinds.get(kind).add(lines.label(i));
+            }
+        }
+        String[] why = {
+            "their --lines intensity is 0" + (ions.species.isEmpty() ? "" : " (or so small beside the list's"
+                    + " strongest line that it vanishes when the list is scaled to the strongest one-electron line)"),
+            "their --lines intensities are so small beside the brightest line's that, scaled so the brightest"
+                    + " pixel expects --peak-counts, their counts are below the smallest number a double holds"
+                    + " (about 4.9e-324)",
+            "at --temperature " + OptionRules.show(temperature) + " K the Boltzmann populations of their upper"
+                    + " levels, exp(-E / kT), are below the smallest number a double holds (about 1e-308)"
+                    + (electronDensity == null ? "" : ", or the ionisation balance at --electron-density leaves no"
+                    + " emitters") + "; raise --temperature"};
+        List<String> out = new ArrayList<>();
+        for (int kind = 0; kind < 3; kind++) {
+            if (count[kind] > 0) {
+                out.add(count[kind] + " of the " + inside + " lines inside the range "
+                        + (count[kind] == 1 ? "carries" : "carry") + " no light (" + String.join(", ", kinds.get(kind))
+                        + (count[kind] > kinds.get(kind).size() ? ", ..." : "") + "): " + why[kind]);
+            }
+        }
+        return out;
     }
 
     /** Runs a builder step, naming the option when the engine refuses its value. */
@@ -663,6 +715,9 @@ final class SynthCommand implements Callable<Integer> {
     private double spectrumEdge(int end) {
         return grid(AxisMedium.of(medium)).edge(end == 0 ? 0 : pixels);
     }
+
+    /** Whether the note on --from/--to without a medium has been printed (the grid is made more than once). */
+    private boolean noted;
 
     private String gridName() {
         return dispersion == null ? gridKind : "dispersion " + dispersion;

@@ -181,6 +181,42 @@ class SynthCommandTest {
         assertTrue(cold.err().contains("--temperature must be a temperature above 0 and below 1e9 K, got -3"), cold.err());
     }
 
+    /**
+     * --grid with --dispersion is named for what it is, whether or not --from/--to are given too
+     * (and an explicit --grid linear counts: the polynomial places the pixels); --peak-counts says
+     * it sets the lines' peak, a continuum on top; a bare wavelength on an air axis is noted as
+     * read in vacuum, with the axis it gives (656.28 nm in vacuum is 656.0987 nm in standard air,
+     * the 0.181 nm shift of the air model at that wavelength).
+     */
+    @Test
+    void gridDispersionPeakCountsAndBareWavelengthsAreExplained() {
+        for (String kind : new String[] {"log", "linear"}) {
+            CliTest.Run run = CliTest.run("synth", "--lines", "lamp-ne-i", "--grid", kind, "--dispersion", "500,0.1",
+                    "--temperature", "400");
+            assertEquals(2, run.code(), run.err());
+            assertTrue(run.err().contains("ritzwerk synth: --grid does not apply with --dispersion (its polynomial"
+                    + " places the pixels)"), run.err());
+            assertTrue(!run.err().contains("not both"), run.err());
+        }
+        CliTest.Run both = CliTest.run("synth", "--lines", "lamp-ne-i", "--grid", "log", "--dispersion", "500,0.1",
+                "--from", "500 nm", "--to", "600 nm", "--temperature", "400");
+        assertTrue(both.err().contains("give --dispersion or --from/--to, not both; --grid does not apply with"
+                + " --dispersion"), both.err());
+        String help = CliTest.run("synth", "--help").out().replaceAll("\\s+", " ");
+        assertTrue(help.contains("Expected counts in the brightest pixel of the lines alone, before noise; a"
+                + " continuum is added on top (its own brightest pixel at --continuum-counts), so a pixel may exceed"
+                + " it."), help);
+        CliTest.Run bare = CliTest.run("synth", "--species", "H I", "--from", "656.28nm", "--to", "660 nm air",
+                "--medium", "air", "--temperature", "8000", "--pixels", "100", "--no-noise");
+        assertEquals(0, bare.code(), bare.err());
+        assertTrue(bare.err().contains("note: 656.28nm names no medium and is read as vacuum (as every wavelength"
+                + " without one): the air axis runs from 656.0987"), bare.err());
+        CliTest.Run stated = CliTest.run("synth", "--species", "H I", "--from", "656.28 nm vacuum", "--to",
+                "660 nm air", "--medium", "air", "--temperature", "8000", "--pixels", "100", "--no-noise");
+        assertEquals(0, stated.code(), stated.err());
+        assertTrue(!stated.err().contains("names no medium"), stated.err());
+    }
+
     @Test
     void velocityShiftsEveryLineByTheDopplerFactor(@TempDir Path dir) throws IOException {
         // lambda_observed = lambda sqrt((1 + v/c) / (1 - v/c)) (relativistic Doppler; common practice).
@@ -463,6 +499,45 @@ class SynthCommandTest {
         // A --lines name that looks like a file is reported as a missing file, not an unknown data set.
         assertTrue(CliTest.run("synth", "--lines", "nosuch.csv", "--from", "600 nm", "--to", "700 nm",
                 "--temperature", "400").err().contains("--lines nosuch.csv: no such file"));
+    }
+
+    /**
+     * --lines entries that put no light in the spectrum are each named with their own cause: an
+     * entry without an intensity (left out), an intensity of 0, and one so faint beside the
+     * strongest (1e-308 beside 1e308) that its counts underflow; with and without --species. None
+     * is blamed on Boltzmann populations (a line list has none), and none goes unmentioned.
+     */
+    @Test
+    void linesWithoutLightAreNamedWithTheirCause(@TempDir Path dir) throws IOException {
+        String head = "# ritzwerk-lines 1\n# id: dark\n# title: t\n# source: s\n# provenance: computed\n# version: 1\n"
+                + "# position-unit: nm\n# medium: vacuum\nspecies,position,intensity\n";
+        Path list = dir.resolve("dark.csv");
+        Files.writeString(list, head + "Ar I,501.0,1e308\nAr I,520.0,\nAr I,540.0,0\nAr I,560.0,1e-308\n");
+        for (boolean ions : new boolean[] {false, true}) {
+            List<String> args = new ArrayList<>(List.of("synth", "--lines", list.toString(), "--from", "500nm", "--to",
+                    "600nm", "--pixels", "2000", "--temperature", "300", "--no-noise", "--out",
+                    dir.resolve("s.csv").toString()));
+            if (ions) {
+                args.addAll(List.of("--species", "H"));
+            }
+            CliTest.Run run = CliTest.run(args.toArray(String[]::new));
+            assertEquals(0, run.code(), run.err());
+            assertTrue(run.err().contains("note: line list dark: 1 line between the grid's ends gives no intensity and"
+                    + " is left out (Ar I 520.0 nm vacuum)"), run.err());
+            assertTrue(run.err().contains("note: 1 of the 3 lines inside the range carries no light (Ar I 540.0 nm"
+                    + " vacuum): their --lines intensity is 0"), run.err());
+            assertTrue(run.err().contains("note: 1 of the 3 lines inside the range carries no light (Ar I 560.0 nm"
+                    + " vacuum): their --lines intensities are so small beside the brightest line's"), run.err());
+            assertTrue(!run.err().contains("Boltzmann"), run.err());
+        }
+        // Only entries of intensity 0 on the grid: the run fails, saying so.
+        Files.writeString(list, head + "Ar I,540.0,0\nAr I,700.0,1\n");
+        CliTest.Run dark = CliTest.run("synth", "--lines", list.toString(), "--from", "500nm", "--to", "600nm",
+                "--temperature", "300", "--no-noise");
+        assertEquals(2, dark.code(), dark.err());
+        assertTrue(dark.err().contains("1 line(s) of " + list + " fall between 500nm and 600nm, but none carries any"
+                + " light: 1 of the 1 lines inside the range carries no light (Ar I 540.0 nm vacuum): their --lines"
+                + " intensity is 0"), dark.err());
     }
 
     /** Noise from the default seed is noted: spectra made in bulk without --seed would share it. */

@@ -85,15 +85,15 @@ public final class SpectrumLineFiles {
     /**
      * Writes the lines of a synthetic spectrum, one row per line in the spectrum's order.
      *
-     * @param spectrum the spectrum
-     * @param medium   the medium of its axis (the lines' wavelengths are in it)
+     * @param spectrum the spectrum; the header's {@code medium} is its axis medium
+     *                 ({@link SyntheticSpectrum#medium()}), in which its lines' positions are
      * @param out      where to write; not closed
      * @throws IOException when writing fails
      * @throws IllegalArgumentException naming the line when a value is not finite, a wavelength not
      *         positive, counts or a width negative, or a label empty, not one line or over 500
      *         characters (checked before anything is written)
      */
-    public static void writeCsv(SyntheticSpectrum spectrum, Medium medium, Writer out) throws IOException {
+    public static void writeCsv(SyntheticSpectrum spectrum, Writer out) throws IOException {
         Scene.Lines lines = spectrum.lines();
         for (int i = 0; i < lines.size(); i++) {
             check(i, lines.position(i), spectrum.lineCounts(i), lines.gaussianFwhm(i), lines.lorentzFwhm(i),
@@ -101,7 +101,7 @@ public final class SpectrumLineFiles {
             check(i, lines.position(i), spectrum.lineCountsInPixels(i), 0, 0, lines.label(i));
         }
         out.write("# " + FORMAT + " " + VERSION + "\n");
-        out.write("# medium: " + medium.spec() + "\n");
+        out.write("# medium: " + spectrum.medium().spec() + "\n");
         out.write("# counts: " + COUNTS_NOTE + "\n");
         out.write("# widths: " + WIDTHS_NOTE + "\n");
         out.write(String.join(",", COLUMNS) + "\n");

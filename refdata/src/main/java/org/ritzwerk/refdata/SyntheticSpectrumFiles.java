@@ -34,8 +34,8 @@ import tools.jackson.databind.json.JsonMapper;
  * ({@code quantity}, {@code unit}, {@code medium}, {@code grid}), {@code scene} (the description,
  * numbers and booleans as JSON numbers and booleans), {@code notes}, {@code pixel_edges_nm} (one
  * more than pixels), {@code wavelength_nm}, {@code expected_counts}, {@code counts} and
- * {@code lines} (objects with {@code wavelength_nm}, {@code counts}, {@code doppler_fwhm_nm},
- * {@code lorentz_fwhm_nm}, {@code line}, as in {@link SpectrumLineFiles}). {@link #readJson}
+ * {@code lines} (objects with {@code wavelength_nm}, {@code counts}, {@code counts_in_pixels},
+ * {@code doppler_fwhm_nm}, {@code lorentz_fwhm_nm}, {@code line}, as in {@link SpectrumLineFiles}). {@link #readJson}
  * reads it all back.
  *
  * <p>Every number is written as the shortest decimal that reads back as the same double
@@ -55,41 +55,43 @@ public final class SyntheticSpectrumFiles {
     /**
      * The axis line of the CSV encoding.
      *
-     * @param grid   the pixels (nm)
-     * @param medium the axis medium
-     * @param kind   how the pixels are spaced, e.g. {@code linear}, {@code log} or
-     *               {@code dispersion 540,0.06}
+     * @param spectrum the spectrum: its grid (nm) and axis medium
+     * @param kind     how the pixels are spaced, e.g. {@code linear}, {@code log} or
+     *                 {@code dispersion 540,0.06}; checked against the grid's edges
      * @return the value written after {@code # axis: }
+     * @throws IllegalArgumentException when the kind is none of those or does not describe the grid
      */
-    public static String axis(PixelGrid grid, Medium medium, String kind) {
-        return "wavelength nm " + medium.spec() + " (pixel centres; " + kind + " pixels from " + grid.edge(0) + " to "
-                + grid.edge(grid.pixels()) + ")";
+    public static String axis(SyntheticSpectrum spectrum, String kind) {
+        checkKind(spectrum.grid(), kind);
+        PixelGrid grid = spectrum.grid();
+        return "wavelength nm " + spectrum.medium().spec() + " (pixel centres; " + kind + " pixels from "
+                + grid.edge(0) + " to " + grid.edge(grid.pixels()) + ")";
     }
 
     /**
      * Writes the spectrum as CSV.
      *
-     * @param spectrum    the spectrum
-     * @param medium      its axis medium: the medium the scene was built with (the spectrum does
-     *                    not carry it; another medium labels the same numbers wrongly)
-     * @param kind        how the pixels are spaced ({@code linear}, {@code log}, {@code dispersion ...})
+     * @param spectrum    the spectrum; the axis is labelled with its medium ({@link SyntheticSpectrum#medium()})
+     * @param kind        how the pixels are spaced ({@code linear}, {@code log}, {@code dispersion ...}):
+     *                    checked against the grid's edges, see {@link #checkKind}
      * @param description the scene, in order: keys one line of text without {@code :} and not
      *                    {@code axis}; values text, numbers or booleans, written with
      *                    {@link String#valueOf(Object)}, one line each
      * @param out         where to write; not closed
      * @throws IOException when writing fails
      * @throws IllegalArgumentException when a value is not finite (naming the pixel), the grid kind is
-     *         none of those, or a description entry cannot be written as one header line
+     *         none of those or does not describe the grid, or a description entry cannot be written as
+     *         one header line (all checked before anything is written)
      */
-    public static void writeCsv(SyntheticSpectrum spectrum, Medium medium, String kind, Map<String, ?> description,
-            Writer out) throws IOException {
+    public static void writeCsv(SyntheticSpectrum spectrum, String kind, Map<String, ?> description, Writer out)
+            throws IOException {
         checkDescription(description);
-        checkKind(kind);
+        checkKind(spectrum.grid(), kind);
         double[] expected = spectrum.expectedCounts();
         double[] counts = spectrum.counts();
         checkPixels(expected, counts);
         out.write("# " + SpectrumFiles.FORMAT + " " + SpectrumFiles.VERSION + "\n");
-        out.write("# axis: " + axis(spectrum.grid(), medium, kind) + "\n");
+        out.write("# axis: " + axis(spectrum, kind) + "\n");
         for (Map.Entry<String, ?> entry : description.entrySet()) {
             out.write("# " + entry.getKey() + ": " + entry.getValue() + "\n");
         }
@@ -106,20 +108,20 @@ public final class SyntheticSpectrumFiles {
     /**
      * Writes the spectrum as one JSON document.
      *
-     * @param spectrum    the spectrum
-     * @param medium      its axis medium
-     * @param kind        how the pixels are spaced
+     * @param spectrum    the spectrum; the axis is labelled with its medium ({@link SyntheticSpectrum#medium()})
+     * @param kind        how the pixels are spaced, checked against the grid's edges as by {@link #checkKind}
      * @param description the scene, in order: values text ({@link CharSequence}), booleans, or
      *                    numbers ({@link Double}, {@link Float}, {@link Long}, {@link Integer})
      * @param notes       what the caller should know about the scene (may be empty)
      * @param out         where to write; not closed
      * @throws IOException when writing fails
-     * @throws IllegalArgumentException when a value is not finite or of another type
+     * @throws IllegalArgumentException when a value is not finite or of another type, or the grid kind
+     *         does not describe the grid (checked before anything is written)
      */
-    public static void writeJson(SyntheticSpectrum spectrum, Medium medium, String kind, Map<String, ?> description,
+    public static void writeJson(SyntheticSpectrum spectrum, String kind, Map<String, ?> description,
             List<String> notes, Writer out) throws IOException {
         checkDescription(description);
-        checkKind(kind);
+        checkKind(spectrum.grid(), kind);
         double[] expected = spectrum.expectedCounts();
         double[] counts = spectrum.counts();
         checkPixels(expected, counts);
@@ -138,7 +140,7 @@ public final class SyntheticSpectrumFiles {
             g.writeStartObject();
             g.writeStringProperty("quantity", "wavelength");
             g.writeStringProperty("unit", "nm");
-            g.writeStringProperty("medium", medium.spec());
+            g.writeStringProperty("medium", spectrum.medium().spec());
             g.writeStringProperty("grid", kind);
             g.writeEndObject();
             g.writeName("scene");
@@ -235,13 +237,89 @@ public final class SyntheticSpectrumFiles {
         }
     }
 
-    /** The grid kinds a spectrum file names: linear, log, or "dispersion" and its coefficients. */
-    private static void checkKind(String kind) {
+    /**
+     * Checks that a grid kind, as a spectrum file names it, describes the grid: {@code linear}
+     * (equal pixels from the first edge to the last), {@code log} (edges in geometric progression
+     * from the first to the last, both positive) or {@code dispersion c0,c1,...} (edge i at
+     * {@code c0 + c1 (i - 1/2) + ...}, as {@link PixelGrid#dispersion} places it). Every edge must lie
+     * where the kind puts it to 1e-6 of the mean pixel width (plus a few units in the last place of
+     * the edges): rounding passes, a logarithmic grid called linear does not, down to ranges of a
+     * few thousandths of the wavelength over ten pixels.
+     *
+     * @param grid the pixels, nm
+     * @param kind the kind
+     * @throws IllegalArgumentException when the kind is none of those, its coefficients are not
+     *         numbers, or an edge lies elsewhere (naming the first such edge, both positions, and the
+     *         grid's own spacing where it is linear or logarithmic)
+     */
+    public static void checkKind(PixelGrid grid, String kind) {
         checkLine("grid kind", java.util.Objects.requireNonNull(kind, "kind"));
-        if (!kind.equals("linear") && !kind.equals("log") && !kind.startsWith("dispersion ")) {
+        int n = grid.pixels();
+        double first = grid.edge(0);
+        double last = grid.edge(n);
+        java.util.function.IntToDoubleFunction edge;
+        if (kind.equals("linear")) {
+            edge = linearEdges(first, last, n);
+        } else if (kind.equals("log")) {
+            if (!(first > 0 && last > 0)) {
+                throw new IllegalArgumentException("grid kind 'log' needs positive edges, got " + first + " to "
+                        + last);
+            }
+            edge = logEdges(first, last, n);
+        } else if (kind.startsWith("dispersion ")) {
+            String[] cells = kind.substring("dispersion ".length()).split(",");
+            double[] c = new double[cells.length];
+            for (int k = 0; k < c.length; k++) {
+                try {
+                    c[k] = Double.parseDouble(cells[k].strip());
+                } catch (NumberFormatException e) {
+                    throw new IllegalArgumentException("grid kind '" + kind + "': coefficient c" + k + " '"
+                            + cells[k].strip() + "' is not a number");
+                }
+            }
+            edge = i -> {
+                double p = i - 0.5;
+                double v = 0;
+                for (int k = c.length - 1; k >= 0; k--) {
+                    v = v * p + c[k];
+                }
+                return v;
+            };
+        } else {
             throw new IllegalArgumentException("grid kind must be linear, log or \"dispersion\" followed by its "
                     + "coefficients, got '" + kind + "'");
         }
+        double tolerance = 1e-6 * Math.abs(last - first) / n + 4 * Math.ulp(Math.max(Math.abs(first), Math.abs(last)));
+        int bad = firstMisplaced(grid, edge, tolerance);
+        if (bad < 0) {
+            return;
+        }
+        String actual = firstMisplaced(grid, linearEdges(first, last, n), tolerance) < 0 ? " (the grid is linear)"
+                : first > 0 && last > 0 && firstMisplaced(grid, logEdges(first, last, n), tolerance) < 0
+                ? " (the grid is log)" : "";
+        throw new IllegalArgumentException("grid kind '" + kind + "' does not describe the spectrum's pixels: edge "
+                + bad + " is at " + grid.edge(bad) + " nm, where that kind puts it at " + edge.applyAsDouble(bad)
+                + " nm" + actual + "; name the spacing the grid was made with");
+    }
+
+    private static java.util.function.IntToDoubleFunction linearEdges(double first, double last, int n) {
+        double step = (last - first) / n;
+        return i -> first + i * step;
+    }
+
+    private static java.util.function.IntToDoubleFunction logEdges(double first, double last, int n) {
+        double ratio = Math.log(last / first) / n;
+        return i -> first * Math.exp(i * ratio);
+    }
+
+    /** @return the first edge farther than tolerance from where {@code edge} puts it, or -1 */
+    private static int firstMisplaced(PixelGrid grid, java.util.function.IntToDoubleFunction edge, double tolerance) {
+        for (int i = 0; i <= grid.pixels(); i++) {
+            if (!(Math.abs(grid.edge(i) - edge.applyAsDouble(i)) <= tolerance)) {
+                return i;
+            }
+        }
+        return -1;
     }
 
     private static void checkLine(String what, String text) {

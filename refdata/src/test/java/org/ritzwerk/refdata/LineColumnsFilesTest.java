@@ -207,7 +207,7 @@ class LineColumnsFilesTest {
     private static String truth(SyntheticSpectrum spectrum) {
         StringWriter out = new StringWriter();
         try {
-            SpectrumLineFiles.writeCsv(spectrum, Medium.air(), out);
+            SpectrumLineFiles.writeCsv(spectrum, out);
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         }

@@ -1,9 +1,11 @@
 package org.ritzwerk.refdata;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
+import java.io.StringWriter;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.Map;
@@ -94,8 +96,8 @@ class SynthesisGuideTest {
         // --- README: write a synthetic spectrum and its truth (temporary file, renamed when complete), read back ---
         Map<String, Object> description = Map.of("species", "H I", "temperature-k", 8000.0);
         OutputFiles.writeText(spectrumFile,
-                out -> SyntheticSpectrumFiles.writeCsv(spectrum, Medium.air(), "linear", description, out));
-        OutputFiles.writeText(truthFile, out -> SpectrumLineFiles.writeCsv(spectrum, Medium.air(), out));
+                out -> SyntheticSpectrumFiles.writeCsv(spectrum, "linear", description, out));  // medium: the scene's
+        OutputFiles.writeText(truthFile, out -> SpectrumLineFiles.writeCsv(spectrum, out));
         SpectrumFiles.Spectrum back = SpectrumFiles.read(spectrumFile);          // counts, expected counts, header
         SpectrumLineFiles.SpectrumLines truth = SpectrumLineFiles.read(truthFile);  // the lines that went in
         // --- end ---
@@ -106,6 +108,54 @@ class SynthesisGuideTest {
         assertEquals(Medium.air(), truth.medium());
         assertTrue(truth.labels().contains("H I Balmer alpha"), truth.labels().toString());
     }
+    /**
+     * The writers label the axis with the medium the scene was built in (the spectrum carries it)
+     * and check the grid kind against the pixels: an air label on vacuum wavelengths, or "linear"
+     * on a logarithmic grid, can no longer be written. H-alpha: 656.46 nm in vacuum, 656.28 nm in
+     * standard air (from memory; the 0.18 nm between them is what the checks tell apart).
+     */
+    @Test
+    void theWritersTakeTheMediumFromTheSceneAndRefuseAGridKindThatDoesNotFit() throws IOException {
+        DataContext data = DataContext.builtIn();
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(data.nucleus(Species.parse("H I")), Tier.DIRAC);
+        Scene.Builder builder = Scene.builder(PixelGrid.logarithmic(650, 660, 100))
+                .hydrogenLike(Species.parse("H I"), hydrogen, 1).temperature(8000);
+        SyntheticSpectrum vacuum = builder.build().render(1);              // medium not set: vacuum
+        SyntheticSpectrum air = builder.medium(Medium.air()).build().render(1);
+        for (SyntheticSpectrum s : new SyntheticSpectrum[] {vacuum, air}) {
+            StringWriter truth = new StringWriter();
+            SpectrumLineFiles.writeCsv(s, truth);
+            SpectrumLineFiles.SpectrumLines back = SpectrumLineFiles.read(truth.toString(), "t.csv");
+            assertEquals(s.medium(), back.medium());
+            int alpha = back.labels().indexOf("H I Balmer alpha");
+            assertEquals(s == vacuum ? 656.46 : 656.28, back.wavelengths()[alpha], 0.01, truth.toString());
+            StringWriter csv = new StringWriter();
+            SyntheticSpectrumFiles.writeCsv(s, "log", Map.of(), csv);
+            assertTrue(csv.toString().startsWith("# ritzwerk-spectrum 1\n# axis: wavelength nm "
+                    + (s == vacuum ? "vacuum" : "air") + " (pixel centres; log pixels from 650.0 to 660.0)\n"),
+                    csv.toString());
+        }
+        assertEquals(Medium.vacuum(), vacuum.medium());
+        StringWriter out = new StringWriter();
+        IllegalArgumentException linear = assertThrows(IllegalArgumentException.class,
+                () -> SyntheticSpectrumFiles.writeCsv(vacuum, "linear", Map.of(), out));
+        assertTrue(linear.getMessage().startsWith("grid kind 'linear' does not describe the spectrum's pixels:"
+                + " edge 1 is at ") && linear.getMessage().contains("(the grid is log)"), linear.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeJson(vacuum,
+                "dispersion 650,0.1", Map.of(), java.util.List.of(), out));
+        assertEquals("", out.toString(), "nothing written");
+        // A linear grid is not log either; a dispersion grid is named by its coefficients.
+        SyntheticSpectrum linearGrid = Scene.builder(PixelGrid.linear(650, 660, 100))
+                .hydrogenLike(Species.parse("H I"), hydrogen, 1).temperature(8000).build().render(1);
+        assertTrue(assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(linearGrid,
+                "log", Map.of(), out)).getMessage().contains("(the grid is linear)"));
+        SyntheticSpectrumFiles.checkKind(linearGrid.grid(), "linear");
+        SyntheticSpectrumFiles.checkKind(PixelGrid.dispersion(new double[] {540, 0.06, -2e-6}, 2048),
+                "dispersion 540,0.06,-2e-6");
+        assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.checkKind(
+                PixelGrid.dispersion(new double[] {540, 0.06, -2e-6}, 2048), "dispersion 540,0.06,-2.1e-6"));
+    }
+
     @Test
     void aBigLineListReadAsColumnsAndRenderedThroughTheFourierDomain(@TempDir Path folder) throws IOException {
         Path file = folder.resolve("big-list.csv");

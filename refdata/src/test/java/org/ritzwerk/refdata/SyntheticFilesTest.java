@@ -22,7 +22,11 @@ import org.ritzwerk.medium.Medium;
 class SyntheticFilesTest {
 
     private static SyntheticSpectrum spectrum(double count, double width, String label) {
-        return SyntheticSpectrum.of(PixelGrid.of(new double[] {656.0, 656.5, 657.0}), new double[] {1.5, 2},
+        return spectrum(Medium.air(), count, width, label);
+    }
+
+    private static SyntheticSpectrum spectrum(Medium medium, double count, double width, String label) {
+        return SyntheticSpectrum.of(PixelGrid.of(new double[] {656.0, 656.5, 657.0}), medium, new double[] {1.5, 2},
                 new double[] {count, 3}, Scene.Lines.of(new double[] {656.28}, new double[] {1}, new double[] {0.02},
                         new double[] {width}, new String[] {label}), new double[] {3.5}, new double[] {3.25});
     }
@@ -34,19 +38,19 @@ class SyntheticFilesTest {
         scene.put("temperature-k", 9000.0);
         scene.put("natural-widths", false);
         StringWriter csv = new StringWriter();
-        SyntheticSpectrumFiles.writeCsv(spectrum(1, 0, "H I Balmer alpha"), Medium.air(), "linear", scene, csv);
+        SyntheticSpectrumFiles.writeCsv(spectrum(1, 0, "H I Balmer alpha"), "linear", scene, csv);
         assertEquals("# ritzwerk-spectrum 1\n"
                 + "# axis: wavelength nm air (pixel centres; linear pixels from 656.0 to 657.0)\n"
                 + "# species: H I\n# temperature-k: 9000.0\n# natural-widths: false\n"
                 + "wavelength_nm,expected_counts,counts\n656.25,1.5,1.0\n656.75,2.0,3.0\n", csv.toString());
         StringWriter truth = new StringWriter();
-        SpectrumLineFiles.writeCsv(spectrum(1, 0, "Ne I 656, \"strong\""), Medium.vacuum(), truth);
+        SpectrumLineFiles.writeCsv(spectrum(Medium.vacuum(), 1, 0, "Ne I 656, \"strong\""), truth);
         assertEquals("# ritzwerk-spectrum-lines 1\n# medium: vacuum\n# counts: " + SpectrumLineFiles.COUNTS_NOTE
                 + "\n# widths: " + SpectrumLineFiles.WIDTHS_NOTE + "\n"
                 + "wavelength_nm,counts,counts_in_pixels,doppler_fwhm_nm,lorentz_fwhm_nm,line\n"
                 + "656.28,3.5,3.25,0.02,0.0,\"Ne I 656, \"\"strong\"\"\"\n", truth.toString());
         StringWriter json = new StringWriter();
-        SyntheticSpectrumFiles.writeJson(spectrum(1, 0, "H I Balmer alpha"), Medium.air(), "linear", scene,
+        SyntheticSpectrumFiles.writeJson(spectrum(1, 0, "H I Balmer alpha"), "linear", scene,
                 List.of("a note"), json);
         assertEquals("{\"format\":\"ritzwerk-spectrum\",\"version\":1,\"axis\":{\"quantity\":\"wavelength\","
                 + "\"unit\":\"nm\",\"medium\":\"air\",\"grid\":\"linear\"},\"scene\":{\"species\":\"H I\","
@@ -61,28 +65,28 @@ class SyntheticFilesTest {
     void valuesTheFilesCannotHoldAreRefusedBeforeWriting() {
         StringWriter out = new StringWriter();
         IllegalArgumentException nan = assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles
-                .writeCsv(spectrum(Double.NaN, 0, "x"), Medium.air(), "linear", Map.of(), out));
+                .writeCsv(spectrum(Double.NaN, 0, "x"), "linear", Map.of(), out));
         assertTrue(nan.getMessage().startsWith("pixel 0: counts must be finite"), nan.getMessage());
         assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeJson(spectrum(1, 0, "x"),
-                Medium.air(), "linear", Map.of("temperature-k", Double.POSITIVE_INFINITY), List.of(), out));
+                "linear", Map.of("temperature-k", Double.POSITIVE_INFINITY), List.of(), out));
         assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(spectrum(1, 0, "x"),
-                Medium.air(), "linear", Map.of("lines", "a\nb"), out));
+                "linear", Map.of("lines", "a\nb"), out));
         // a grid kind the spectrum files do not know was written as "banana pixels"
         assertTrue(assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(
-                spectrum(1, 0, "x"), Medium.air(), "banana", Map.of(), out)).getMessage()
+                spectrum(1, 0, "x"), "banana", Map.of(), out)).getMessage()
                 .contains("grid kind must be linear, log or"));
         assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(spectrum(1, 0, "x"),
-                Medium.air(), "linear", Map.of("axis", "mine"), out));
+                "linear", Map.of("axis", "mine"), out));
         assertThrows(IllegalArgumentException.class, () -> SyntheticSpectrumFiles.writeCsv(spectrum(1, 0, "x"),
-                Medium.air(), "linear", Map.of("a: b", "c"), out));
+                "linear", Map.of("a: b", "c"), out));
         IllegalArgumentException width = assertThrows(IllegalArgumentException.class, () -> SpectrumLineFiles
-                .writeCsv(spectrum(1, Double.NaN, "H I Balmer alpha"), Medium.air(), out));
+                .writeCsv(spectrum(1, Double.NaN, "H I Balmer alpha"), out));
         assertTrue(width.getMessage().startsWith("line 0 (H I Balmer alpha): counts and widths must be finite"),
                 width.getMessage());
         assertThrows(IllegalArgumentException.class, () -> SpectrumLineFiles.writeCsv(spectrum(1, 0, ""),
-                Medium.air(), out));
+                out));
         assertThrows(IllegalArgumentException.class, () -> SpectrumLineFiles.writeCsv(spectrum(1, 0, "two\nlines"),
-                Medium.air(), out));
+                out));
         assertEquals("", out.toString(), "nothing written");
     }
 
@@ -122,7 +126,7 @@ class SyntheticFilesTest {
     @Test
     void aDuplicatedKeyInTheJsonDocumentIsRefused() throws IOException {
         StringWriter json = new StringWriter();
-        SyntheticSpectrumFiles.writeJson(spectrum(1, 0, "x"), Medium.air(), "linear", Map.of(), List.of(), json);
+        SyntheticSpectrumFiles.writeJson(spectrum(1, 0, "x"), "linear", Map.of(), List.of(), json);
         String twice = json.toString().replace("\"notes\":[]", "\"notes\":[],\"notes\":[\"again\"]");
         DataFileException e = assertThrows(DataFileException.class, () -> SyntheticSpectrumFiles.readJson(twice,
                 "s.json"));

@@ -119,13 +119,22 @@ class WrittenFilesReadBackTest {
         return text.toString();
     }
 
-    /** A random synthetic spectrum: increasing edges, any finite counts, lines with awkward labels. */
-    private static SyntheticSpectrum anySpectrum(SplittableRandom r, int pixels, int lineCount) {
-        double[] edges = new double[pixels + 1];
-        edges[0] = 100 + 1000 * r.nextDouble();
-        for (int i = 1; i <= pixels; i++) {
-            edges[i] = edges[i - 1] + (r.nextInt(5) == 0 ? Math.ulp(edges[i - 1]) * (1 + r.nextInt(4))
-                    : 1e-3 * (0.5 + r.nextDouble()));
+    /** A random spectrum and the grid kind that describes its pixels (the writers check it). */
+    private record Drawn(SyntheticSpectrum spectrum, String kind) {
+    }
+
+    /**
+     * A random synthetic spectrum in a random medium: rising edges from a random dispersion
+     * polynomial (every edge an awkward double), any finite counts, lines with awkward labels.
+     */
+    private static Drawn anySpectrum(SplittableRandom r, int pixels, int lineCount) {
+        double c1 = 1e-3 * (0.5 + r.nextDouble());
+        double[] c = r.nextBoolean() ? new double[] {100 + 1000 * r.nextDouble(), c1}
+                : new double[] {100 + 1000 * r.nextDouble(), c1, c1 / pixels * (r.nextDouble() - 0.5) / 2};
+        PixelGrid grid = PixelGrid.dispersion(c, pixels);
+        StringBuilder kind = new StringBuilder("dispersion ");
+        for (int k = 0; k < c.length; k++) {
+            kind.append(k == 0 ? "" : ",").append(c[k]);
         }
         double[] expected = new double[pixels];
         double[] counts = new double[pixels];
@@ -149,8 +158,8 @@ class WrittenFilesReadBackTest {
             inPixels[i] = r.nextInt(5) == 0 ? 0.0 : anyDouble(r, true);
             label[i] = anyText(r, 1, 40);
         }
-        return SyntheticSpectrum.of(PixelGrid.of(edges), expected, counts,
-                Scene.Lines.of(position, photons, gaussian, lorentz, label), lineCounts, inPixels);
+        return new Drawn(SyntheticSpectrum.of(grid, anyMedium(r), expected, counts,
+                Scene.Lines.of(position, photons, gaussian, lorentz, label), lineCounts, inPixels), kind.toString());
     }
 
     /** A random scene description: text, doubles, longs and booleans under simple keys. */
@@ -193,10 +202,10 @@ class WrittenFilesReadBackTest {
                 .forAll(integers().between(1, 150), longs().all())
                 .checkAssert((n, seed) -> {
                     SplittableRandom r = new SplittableRandom(seed);
-                    SyntheticSpectrum spectrum = anySpectrum(r, n, r.nextInt(4));
-                    Medium medium = anyMedium(r);
+                    Drawn drawn = anySpectrum(r, n, r.nextInt(4));
+                    SyntheticSpectrum spectrum = drawn.spectrum();
                     Map<String, Object> description = anyDescription(r);
-                    String text = write(out -> SyntheticSpectrumFiles.writeCsv(spectrum, medium, "linear", description,
+                    String text = write(out -> SyntheticSpectrumFiles.writeCsv(spectrum, drawn.kind(), description,
                             out));
                     SpectrumFiles.Spectrum back = SpectrumFiles.read(text, "s.csv");
                     double[] centres = new double[n];
@@ -207,7 +216,7 @@ class WrittenFilesReadBackTest {
                     assertArrayEquals(spectrum.expectedCounts(), back.expectedCounts());
                     assertArrayEquals(spectrum.counts(), back.counts());
                     Map<String, String> header = new LinkedHashMap<>();
-                    header.put("axis", SyntheticSpectrumFiles.axis(spectrum.grid(), medium, "linear"));
+                    header.put("axis", SyntheticSpectrumFiles.axis(spectrum, drawn.kind()));
                     description.forEach((key, value) -> header.put(key, String.valueOf(value)));
                     assertEquals(header, back.header());
                     assertTrue(back.header().get("axis").endsWith(" pixels from " + spectrum.grid().edge(0) + " to "
@@ -221,15 +230,16 @@ class WrittenFilesReadBackTest {
                 .forAll(integers().between(1, 150), integers().between(0, 12), longs().all())
                 .checkAssert((n, lineCount, seed) -> {
                     SplittableRandom r = new SplittableRandom(seed);
-                    SyntheticSpectrum spectrum = anySpectrum(r, n, lineCount);
-                    Medium medium = anyMedium(r);
+                    Drawn drawn = anySpectrum(r, n, lineCount);
+                    SyntheticSpectrum spectrum = drawn.spectrum();
+                    Medium medium = spectrum.medium();
                     Map<String, Object> description = anyDescription(r);
                     List<String> notes = new ArrayList<>();
                     for (int k = r.nextInt(3); k > 0; k--) {
                         notes.add(anyText(r, 0, 50));
                     }
-                    String grid = "dispersion " + anyText(r, 1, 10);
-                    String text = write(out -> SyntheticSpectrumFiles.writeJson(spectrum, medium, grid, description,
+                    String grid = drawn.kind();
+                    String text = write(out -> SyntheticSpectrumFiles.writeJson(spectrum, grid, description,
                             notes, out));
                     SyntheticSpectrumFiles.Document back = SyntheticSpectrumFiles.readJson(text, "s.json");
                     assertEquals(medium, back.medium());
@@ -260,9 +270,9 @@ class WrittenFilesReadBackTest {
                 .forAll(integers().between(0, 60), longs().all())
                 .checkAssert((lineCount, seed) -> {
                     SplittableRandom r = new SplittableRandom(seed);
-                    SyntheticSpectrum spectrum = anySpectrum(r, 2, lineCount);
-                    Medium medium = anyMedium(r);
-                    String text = write(out -> SpectrumLineFiles.writeCsv(spectrum, medium, out));
+                    SyntheticSpectrum spectrum = anySpectrum(r, 2, lineCount).spectrum();
+                    Medium medium = spectrum.medium();
+                    String text = write(out -> SpectrumLineFiles.writeCsv(spectrum, out));
                     SpectrumLineFiles.SpectrumLines back = SpectrumLineFiles.read(text, "truth.csv");
                     assertEquals(medium, back.medium());
                     assertSameLines(spectrum, back);

@@ -98,8 +98,9 @@ public final class Continuum {
             double b = Math.max(grid.edge(p), grid.edge(p + 1));
             double flux = GaussLegendre.integrate(density, a, b);
             if (!(Double.isFinite(flux) && flux >= 0)) {
-                throw new IllegalArgumentException("pixel " + p + ": the continuum density gives " + flux
-                        + " between " + a + " and " + b + "; it must be finite and not negative");
+                throw new IllegalArgumentException("pixel " + p + ": the continuum density integrates to " + flux
+                        + " over the pixel, from " + a + " to " + b + " (the density at its centre is "
+                        + density.applyAsDouble(0.5 * (a + b)) + "); a density must be finite and not negative");
             }
             fluxes[p] = flux;
         }

@@ -2,8 +2,12 @@ package org.ritzwerk.engine.synth;
 
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.BitSet;
+import java.util.Collections;
+import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Objects;
+import java.util.Set;
 import java.util.function.DoubleConsumer;
 import java.util.function.DoubleUnaryOperator;
 import java.util.function.Function;
@@ -96,6 +100,7 @@ public final class Scene {
     public static final int MAX_N_WITH_NATURAL_WIDTHS = 60;
 
     private final PixelGrid grid;
+    private final Medium medium;
     private final Instrument instrument;
     private final double window;
     private final Renderer renderer;
@@ -110,6 +115,7 @@ public final class Scene {
 
     private Scene(Builder b) {
         this.grid = b.grid;
+        this.medium = b.medium;
         this.instrument = b.instrument;
         this.window = b.window;
         this.renderer = b.renderer;
@@ -184,16 +190,22 @@ public final class Scene {
         }
         if (brightest == 0 && continuum == null) {
             int inside = 0;
+            int given = 0;
             for (int i = 0; i < lines.size(); i++) {
-                inside += lines.position(i) >= grid.lowest() && lines.position(i) <= grid.highest() ? 1 : 0;
+                if (lines.position(i) >= grid.lowest() && lines.position(i) <= grid.highest()) {
+                    inside++;
+                    given += lines.intensityGiven(i) ? 1 : 0;
+                }
             }
             if (inside > 0) {
+                String populations = "at the scene's temperature the Boltzmann populations of their upper levels,"
+                        + " exp(-E / kT), are below the smallest number a double holds (about 1e-308), or the"
+                        + " ionisation balance leaves no emitters; raise the temperature";
+                String intensities = "their line lists give them intensity 0";
                 throw new SceneException(SceneException.NO_LIGHT, inside + (inside == 1 ? " line falls" : " lines fall")
                         + " on the grid from " + grid.lowest() + " to " + grid.highest() + " nm, but none"
-                        + " carries any light: at the scene's temperature the Boltzmann populations of their upper"
-                        + " levels, exp(-E / kT), are below the smallest number a double holds (about 1e-308), the"
-                        + " ionisation balance leaves no emitters, or a line list gives them no intensity; raise the"
-                        + " temperature");
+                        + " carries any light: " + (given == 0 ? populations : given == inside ? intensities
+                        : given + " of them because " + intensities + ", the others because " + populations));
             }
             throw new SceneException(SceneException.NO_LIGHT, "no line falls on the grid from " + grid.lowest()
                     + " to " + grid.highest() + " nm; widen the range, raise nMax or add emitters");
@@ -231,7 +243,8 @@ public final class Scene {
         for (int i = 0; i < lineCounts.length; i++) {
             lineCounts[i] = lines.photons[i] * scale;
         }
-        return new SyntheticSpectrum(grid, expected, counts, lines, lineCounts, lineCountsInPixels(scale, fast));
+        return new SyntheticSpectrum(grid, medium, expected, counts, lines, lineCounts,
+                lineCountsInPixels(scale, fast));
     }
 
     /**
@@ -291,9 +304,12 @@ public final class Scene {
         /** Where each line's label comes from: a source and the line's index in it. */
         private final LabelSource[] labelSource;
         private final int[] labelIndex;
+        /** The lines whose photon rates are given intensities; never written to after construction. */
+        private final BitSet given;
 
         Lines(double[] position, double[] photons, double[] gaussian, double[] lorentz, LabelSource[] labelSource,
-                int[] labelIndex) {
+                int[] labelIndex, BitSet given) {
+            this.given = given;
             this.position = position;
             this.photons = photons;
             this.gaussian = gaussian;
@@ -334,12 +350,24 @@ public final class Scene {
                 source[i] = texts;
                 index[i] = i;
             }
-            return new Lines(position.clone(), photons.clone(), gaussian.clone(), lorentz.clone(), source, index);
+            return new Lines(position.clone(), photons.clone(), gaussian.clone(), lorentz.clone(), source, index,
+                    new BitSet());
         }
 
         /** @return number of lines */
         public int size() {
             return position.length;
+        }
+
+        /**
+         * @param i the line's index, 0 to {@link #size()} - 1
+         * @return whether its photon rate is an intensity a line list gave (scaled as the scene
+         *         scales lists), rather than a population the scene computed (Boltzmann, Saha);
+         *         false for lines made by {@link #of}
+         */
+        public boolean intensityGiven(int i) {
+            Objects.checkIndex(i, position.length);
+            return given.get(i);
         }
 
         /**
@@ -587,7 +615,9 @@ public final class Scene {
                 throw new IllegalArgumentException("line list " + list.info().id()
                         + " gives no line an intensity; a scene needs them");
             }
-            return lineSet(set, nuclei);
+            Objects.requireNonNull(nuclei, "nuclei");
+            lists.add(new RelativeSet(set, nuclei, "line list " + list.info().id()));
+            return this;
         }
 
         /**
@@ -609,7 +639,7 @@ public final class Scene {
                 throw new IllegalArgumentException("the line set " + set + " gives no line an intensity; a scene needs"
                         + " them");
             }
-            lists.add(new RelativeSet(set, nuclei));
+            lists.add(new RelativeSet(set, nuclei, "the line set"));
             return this;
         }
 
@@ -927,7 +957,9 @@ public final class Scene {
             for (HydrogenLikeEmitter ion : ions) {
                 addIon(ion, out, doppler, ionWindowNm(), stark, notes);
             }
-            for (ListEmitter list : resolvedLists(notes)) {
+            Set<ListEmitter> given = Collections.newSetFromMap(new IdentityHashMap<>());
+            for (ListEmitter list : resolvedLists(notes, given)) {
+                boolean fromIntensity = given.contains(list);
                 out.reserve(list.vacuumNm.length);
                 for (int i = 0; i < list.vacuumNm.length; i++) {
                     double vacuumShifted = list.vacuumNm[i] * doppler;
@@ -941,8 +973,12 @@ public final class Scene {
                     double nu = PhysicalConstants.C / (list.vacuumNm[i] * 1e-9);
                     double gauss = axis * Broadening.dopplerFwhm(nu, temperature, list.massKg) / nu;
                     out.add(axis, list.photons[i], gauss, collisional, list.labels, i);
+                    if (fromIntensity) {
+                        out.given.set(out.size - 1);
+                    }
                 }
             }
+            notes.addAll(linesWithoutIntensity(doppler));
             if (out.outsideMedium > 0) {
                 notes.add(out.outsideMedium + " line(s) just beyond the grid's ends lie outside the air model's range "
                         + "and were left out; only their far wings would have reached the grid");
@@ -950,23 +986,93 @@ public final class Scene {
             return out.lines();
         }
 
-        /** The line lists as fixed photon rates, in the order they were added. */
-        private List<ListEmitter> resolvedLists(List<String> notes) {
+        /**
+         * The line lists as fixed photon rates, in the order they were added; those whose rates are
+         * given intensities (not populations the scene computes) are also put in {@code given}.
+         */
+        private List<ListEmitter> resolvedLists(List<String> notes, Set<ListEmitter> given) {
             List<ListEmitter> out = new ArrayList<>();
             for (Object entry : lists) {
                 if (entry instanceof ListEmitter fixed) {
                     out.add(fixed);
+                    given.add(fixed);
                 } else if (entry instanceof AlkaliEmitter alkali) {
                     out.add(alkaliLines(alkali));
                 } else if (entry instanceof LevelEmitter levels) {
                     out.add(levelLines(levels, notes));
                 } else if (entry instanceof RelativeColumns columns) {
-                    out.addAll(relativeColumnLines(columns));
+                    List<ListEmitter> drawn = relativeColumnLines(columns);
+                    out.addAll(drawn);
+                    given.addAll(drawn);
                 } else {
-                    out.addAll(relativeSetLines((RelativeSet) entry));
+                    List<ListEmitter> drawn = relativeSetLines((RelativeSet) entry);
+                    out.addAll(drawn);
+                    given.addAll(drawn);
                 }
             }
             return out;
+        }
+
+        /**
+         * One note per line list with lines between the grid's ends that give no intensity (and
+         * so are left out), naming how many and the first three.
+         */
+        private List<String> linesWithoutIntensity(double doppler) {
+            List<String> notes = new ArrayList<>();
+            for (Object entry : lists) {
+                List<String> left = new ArrayList<>();
+                int count = 0;
+                String name;
+                if (entry instanceof RelativeSet r) {
+                    name = r.name();
+                    LineSet set = r.set();
+                    for (int i = 0; i < set.size(); i++) {
+                        if (set.relativeIntensity(i).isEmpty() && onGrid(set.vacuumWavelengthNm(i) * doppler)) {
+                            count++;
+                            if (left.size() < 3) {
+                                left.add(set.species(i).notation() + " " + set.name(i));
+                            }
+                        }
+                    }
+                } else if (entry instanceof RelativeColumns r) {
+                    LineColumns columns = r.columns();
+                    name = "line list " + columns.id();
+                    double[] one = new double[1];
+                    for (int i = 0; i < columns.size(); i++) {
+                        if (!Double.isNaN(columns.intensity(i))) {
+                            continue;
+                        }
+                        SpectralArrays.convert(new double[] {columns.position(i)}, columns.unit(), columns.medium(),
+                                Unit.METRE, Medium.vacuum(), one);
+                        if (onGrid(one[0] * 1e9 * doppler)) {
+                            count++;
+                            if (left.size() < 3) {
+                                left.add(columns.coveredSpecies().get(columns.speciesNumber(i)).notation() + " "
+                                        + columns.position(i) + " " + columns.unit().symbol()
+                                        + (columns.medium() == null ? "" : " " + columns.medium().label()));
+                            }
+                        }
+                    }
+                } else {
+                    continue;
+                }
+                if (count > 0) {
+                    notes.add(name + ": " + count + (count == 1 ? " line" : " lines") + " between the grid's ends"
+                            + (count == 1 ? " gives" : " give") + " no intensity and " + (count == 1 ? "is" : "are")
+                            + " left out (" + String.join(", ", left) + (count > left.size() ? ", ..." : "") + ")");
+                }
+            }
+            return notes;
+        }
+
+        /** Whether a shifted vacuum wavelength, nm, lies between the grid's ends on the axis. */
+        private boolean onGrid(double vacuumNm) {
+            try {
+                double axis = medium.fromVacuum(vacuumNm * 1e-9) * 1e9;
+                return axis >= grid.lowest() && axis <= grid.highest();
+            } catch (MediumException e) {
+                return false;
+            }
         }
 
         private ListEmitter alkaliLines(AlkaliEmitter e) {
@@ -1504,7 +1610,8 @@ public final class Scene {
     }
 
 
-    private record RelativeSet(LineSet set, Function<Species, Nucleus> nuclei) {
+    /** A line set with relative intensities; {@code name} names it in notes ("line list lamp-ne-i"). */
+    private record RelativeSet(LineSet set, Function<Species, Nucleus> nuclei, String name) {
     }
 
     private record RelativeColumns(LineColumns columns, Function<Species, Nucleus> nuclei) {
@@ -1522,6 +1629,8 @@ public final class Scene {
         private double[] lorentz = new double[64];
         private LabelSource[] labelSource = new LabelSource[64];
         private int[] labelIndex = new int[64];
+        /** The lines whose photon rates are given intensities (line lists), not computed populations. */
+        private final BitSet given = new BitSet();
         /** The labels given as text, one by one (the ions' lines). */
         private final List<String> texts = new ArrayList<>();
         private final LabelSource textSource = texts::get;
@@ -1567,10 +1676,11 @@ public final class Scene {
 
         Lines lines() {
             if (size == position.length) {
-                return new Lines(position, photons, gaussian, lorentz, labelSource, labelIndex);
+                return new Lines(position, photons, gaussian, lorentz, labelSource, labelIndex, given);
             }
             return new Lines(Arrays.copyOf(position, size), Arrays.copyOf(photons, size), Arrays.copyOf(gaussian, size),
-                    Arrays.copyOf(lorentz, size), Arrays.copyOf(labelSource, size), Arrays.copyOf(labelIndex, size));
+                    Arrays.copyOf(lorentz, size), Arrays.copyOf(labelSource, size), Arrays.copyOf(labelIndex, size),
+                    given);
         }
     }
 }

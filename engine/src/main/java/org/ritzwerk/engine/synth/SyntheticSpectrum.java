@@ -1,7 +1,11 @@
 package org.ritzwerk.engine.synth;
 
+import java.util.Objects;
+import org.ritzwerk.medium.Medium;
+
 /**
- * A rendered {@link Scene}: the pixel grid, the expected counts per pixel before noise, the
+ * A rendered {@link Scene}: the pixel grid and the medium of its wavelengths (the scene's axis
+ * medium, so a writer labels the axis from the spectrum itself), the expected counts per pixel before noise, the
  * counts with noise (equal to the expected counts for a noise-free scene), and the lines with
  * the counts each carries: over its whole profile ({@link #lineCounts}) and the part of them the
  * pixels hold ({@link #lineCountsInPixels}). Arrays are copied out; the value is immutable.
@@ -9,15 +13,17 @@ package org.ritzwerk.engine.synth;
 public final class SyntheticSpectrum {
 
     private final PixelGrid grid;
+    private final Medium medium;
     private final double[] expected;
     private final double[] counts;
     private final Scene.Lines lines;
     private final double[] lineCounts;
     private final double[] inPixels;
 
-    SyntheticSpectrum(PixelGrid grid, double[] expected, double[] counts, Scene.Lines lines, double[] lineCounts,
-            double[] inPixels) {
+    SyntheticSpectrum(PixelGrid grid, Medium medium, double[] expected, double[] counts, Scene.Lines lines,
+            double[] lineCounts, double[] inPixels) {
         this.grid = grid;
+        this.medium = medium;
         this.expected = expected;
         this.counts = counts;
         this.lines = lines;
@@ -28,7 +34,8 @@ public final class SyntheticSpectrum {
     /**
      * A spectrum from its parts, for instance as read back from a file; the arrays are copied.
      *
-     * @param grid           the pixels
+     * @param grid           the pixels, nm
+     * @param medium         the medium of the grid's wavelengths and the lines' positions
      * @param expectedCounts expected counts per pixel, one per pixel
      * @param counts         counts per pixel with noise, one per pixel
      * @param lines          the lines that went in
@@ -37,8 +44,9 @@ public final class SyntheticSpectrum {
      * @return the spectrum
      * @throws IllegalArgumentException when an array's length does not match the grid or the lines
      */
-    public static SyntheticSpectrum of(PixelGrid grid, double[] expectedCounts, double[] counts, Scene.Lines lines,
-            double[] lineCounts, double[] inPixels) {
+    public static SyntheticSpectrum of(PixelGrid grid, Medium medium, double[] expectedCounts, double[] counts,
+            Scene.Lines lines, double[] lineCounts, double[] inPixels) {
+        Objects.requireNonNull(medium, "medium");
         if (expectedCounts.length != grid.pixels() || counts.length != grid.pixels()) {
             throw new IllegalArgumentException("a grid of " + grid.pixels() + " pixels needs as many expected counts ("
                     + expectedCounts.length + " given) and counts (" + counts.length + " given)");
@@ -47,13 +55,21 @@ public final class SyntheticSpectrum {
             throw new IllegalArgumentException(lines.size() + " lines need as many line counts and counts in the"
                     + " pixels, got " + lineCounts.length + " and " + inPixels.length);
         }
-        return new SyntheticSpectrum(grid, expectedCounts.clone(), counts.clone(), lines, lineCounts.clone(),
+        return new SyntheticSpectrum(grid, medium, expectedCounts.clone(), counts.clone(), lines, lineCounts.clone(),
                 inPixels.clone());
     }
 
     /** @return the pixels */
     public PixelGrid grid() {
         return grid;
+    }
+
+    /**
+     * @return the medium of the grid's wavelengths and of the lines' positions: the axis medium
+     *         the scene was built with ({@link Scene.Builder#medium}, vacuum by default)
+     */
+    public Medium medium() {
+        return medium;
     }
 
     /** @return expected counts per pixel, before noise (a copy) */

@@ -74,6 +74,13 @@ class ContinuumTest {
         assertTrue(assertThrows(IllegalArgumentException.class,
                 () -> Continuum.render(grid, x -> 0.5 - x, out)).getMessage().startsWith("pixel 2:"));
         assertEquals(0, out[0] + out[1], 0, "a refused call adds nothing, not even to the good pixels");
+        // The message names the pixel's integral as an integral and the density as the density
+        // (a density of -1 over a pixel 0.25 wide integrates to -0.25).
+        String negative = assertThrows(IllegalArgumentException.class, () -> Continuum.render(grid, x -> -1, out))
+                .getMessage();
+        assertTrue(negative.matches("pixel 0: the continuum density integrates to -0\\.2500+\\d* over the pixel, from"
+                + " 0\\.0 to 0\\.25 \\(the density at its centre is -1\\.0\\); a density must be finite and not"
+                + " negative"), negative);
         assertEquals("temperature must be finite and positive, got 0.0 K",
                 assertThrows(IllegalArgumentException.class, () -> Continuum.planckPerWavelength(1e-6, 0)).getMessage());
     }

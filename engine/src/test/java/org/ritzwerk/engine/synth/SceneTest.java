@@ -327,6 +327,33 @@ class SceneTest {
         assertEquals("Xx I", scene.lines().label(1));
     }
 
+    /**
+     * Each line says whether its photon rate is a list's given intensity or a population the
+     * scene computed; a scene whose only lines on the grid have intensity 0 fails saying that,
+     * not blaming their Boltzmann populations.
+     */
+    @Test
+    void linesSayWhetherTheirIntensityWasGiven() {
+        double mass = 40 * PhysicalConstants.ATOMIC_MASS_CONSTANT.value();
+        Scene scene = Scene.builder(PixelGrid.linear(480, 700, 2000)).hydrogenLike(Species.parse("H I"), H, 1)
+                .lineList("Xx I", new double[] {500, 600}, new double[] {1, 0}, mass).temperature(9000).build();
+        Scene.Lines lines = scene.lines();
+        int given = 0;
+        for (int i = 0; i < lines.size(); i++) {
+            boolean list = lines.label(i).equals("Xx I");
+            assertEquals(list, lines.intensityGiven(i), lines.label(i));
+            given += list ? 1 : 0;
+        }
+        assertEquals(2, given);
+        SceneException dark = assertThrows(SceneException.class, () -> Scene.builder(PixelGrid.linear(580, 620, 200))
+                .lineList("Xx I", new double[] {600}, new double[] {0}, mass).temperature(300).build().render(1));
+        assertEquals(SceneException.NO_LIGHT, dark.code());
+        assertEquals("1 line falls on the grid from 580.0 to 620.0 nm, but none carries any light: their line lists"
+                + " give them intensity 0", dark.getMessage());
+        assertFalse(Scene.Lines.of(new double[] {1}, new double[] {1}, new double[] {0}, new double[] {0},
+                new String[] {"x"}).intensityGiven(0));
+    }
+
     @Test
     void badDescriptionsAreRefusedWithTheirName() {
         PixelGrid grid = PixelGrid.linear(400, 700, 100);
