@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.plasma;
 
 import org.ritzwerk.constants.PhysicalConstants;
+import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
 
 /**
@@ -245,7 +246,7 @@ public final class IonisationBalance {
      * @param model           the ion
      * @param temperature     temperature in K, positive
      * @param electronDensity electron density in m^-3, positive
-     * @return the highest bound n, at least 1
+     * @return the highest bound n, at least 1 and at most {@link HydrogenLikeLines#MAX_N}
      * @throws IllegalArgumentException when the lowering reaches the ground level's binding energy
      *         (no bound level: the Debye-Hueckel picture fails long before)
      */
@@ -258,12 +259,15 @@ public final class IonisationBalance {
                     + " (%.4g eV): no level is bound and the Debye-Hueckel picture does not hold", temperature,
                     electronDensity, lowering / PhysicalConstants.E, ground / PhysicalConstants.E));
         }
-        // Bohr scaling gives the start; the model's energies settle it.
-        int n = (int) Math.max(1, Math.min(Integer.MAX_VALUE - 2, Math.floor(Math.sqrt(ground / lowering))));
+        // Bohr scaling gives the start; the model's energies settle it. The models' levels end at
+        // HydrogenLikeLines.MAX_N: a lowering too small to end them sooner (a very thin plasma) ends
+        // the bound levels there.
+        int top = HydrogenLikeLines.MAX_N;
+        int n = (int) Math.max(1, Math.min(top, Math.floor(Math.sqrt(ground / lowering))));
         while (n > 1 && binding(model, n) <= lowering) {
             n--;
         }
-        while (binding(model, n + 1) > lowering) {
+        while (n < top && binding(model, n + 1) > lowering) {
             n++;
         }
         return n;

@@ -1367,7 +1367,10 @@ public final class Scene {
                 }
             }
             double ionScale = ions.isEmpty() ? 0 : strongestIonLine(lo, hi);
-            double scale = ionScale > 0 ? ionScale / strongest : 1;
+            // with ions, the list's strongest line gets their reference rate (the ratio taken first,
+            // so a faint reference, Lyman-alpha at a few hundred kelvin, does not underflow beside
+            // large intensities); without, the list's own intensities
+            double reference = ionScale > 0 ? ionScale : Double.NaN;
             String suffix = " " + columns.unit().symbol() + (columns.medium() == null ? "" : " "
                     + columns.medium().label());
             int[] count = new int[columns.coveredSpecies().size()];
@@ -1387,7 +1390,8 @@ public final class Scene {
                 for (int i = 0; i < size && k < n; i++) {
                     if (columns.speciesNumber(i) == number && !Double.isNaN(columns.intensity(i))) {
                         nm[k] = vacuum[i] * 1e9;
-                        photons[k] = columns.intensity(i) * scale;
+                        photons[k] = Double.isNaN(reference) ? columns.intensity(i)
+                                : columns.intensity(i) / strongest * reference;
                         row[k] = i;
                         k++;
                     }
@@ -1416,7 +1420,10 @@ public final class Scene {
                 }
             }
             double ionScale = ions.isEmpty() ? 0 : strongestIonLine(lo, hi);
-            double scale = ionScale > 0 ? ionScale / strongest : 1;
+            // with ions, the list's strongest line gets their reference rate (the ratio taken first,
+            // so a faint reference, Lyman-alpha at a few hundred kelvin, does not underflow beside
+            // large intensities); without, the list's own intensities
+            double reference = ionScale > 0 ? ionScale : Double.NaN;
             List<ListEmitter> out = new ArrayList<>();
             for (Species species : set.speciesList()) {
                 double[] nm = new double[set.size()];
@@ -1426,7 +1433,8 @@ public final class Scene {
                 for (int i = 0; i < set.size(); i++) {
                     if (set.species(i).equals(species) && set.relativeIntensity(i).isPresent()) {
                         nm[n] = set.vacuumWavelengthNm(i);
-                        photons[n] = set.relativeIntensity(i).getAsDouble() * scale;
+                        photons[n] = Double.isNaN(reference) ? set.relativeIntensity(i).getAsDouble()
+                                : set.relativeIntensity(i).getAsDouble() / strongest * reference;
                         labels[n] = species.notation() + " " + set.name(i);
                         n++;
                     }
