@@ -311,10 +311,14 @@ public final class PeakFinder {
             line[i] = counts[i] - baseline[i];
         }
         double[] smooth = smooth(line, smoothing);
-        double gain = counted ? step : 1;
+        // Counts that all share a common step above 1 (whole photo-electrons times a gain) carry a
+        // Poisson variance of that step times their counts; otherwise gain 1 is assumed and the
+        // pooled scale F takes up the difference.
+        double gain = counted || step > 1 ? step : 1;
         int[] candidates = candidates(line, smooth, saturated, sigma, noise, gain);
-        Peaks found = fitAll(counts, sigma, saturated, noise, counted, gain, baseline, line, candidates);
-        return found.withNoiseModel(counted ? step : Double.NaN, clamp, clampedShare(counts, estimate, clamp));
+        Peaks found = fitAll(counts, sigma, saturated, noise, counted, gain, !Double.isNaN(clamp), baseline, line,
+                candidates);
+        return found.withNoiseModel(counted, gain, clamp, clampedShare(counts, estimate, clamp));
     }
 
     /** The share of the baseline's unmasked pixels that sit at the clamp, or NaN when not clamped. */
@@ -498,7 +502,7 @@ public final class PeakFinder {
      * acceptance that follows).
      */
     private Peaks fitAll(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
-            double gain, double[] baseline, double[] line, int[] candidates) {
+            double gain, boolean clamped, double[] baseline, double[] line, int[] candidates) {
         int n = counts.length;
         int m = candidates.length;
         double[] fwhm = new double[m];
@@ -543,7 +547,7 @@ public final class PeakFinder {
             }
             out.absorb(parts[c]);
         }
-        return out.build(n, noise, baseline, sigma != null);
+        return out.build(n, noise, baseline, sigma != null, clamped);
     }
 
     /** Splits a chain of overlapping candidates [from, to) into blends of at most maxBlend. */
@@ -1007,7 +1011,12 @@ public final class PeakFinder {
             unfitted[unfittedSize++] = pixel;
         }
 
-        Peaks build(int pixels, double[] noise, double[] baseline, boolean sigmasGiven) {
+        /**
+         * @param clamped whether the counts were clamped: the pooled scale is then at least 1, since
+         *                the clamped pixels in the fits' wings scatter less than the background noise
+         *                and would narrow every uncertainty
+         */
+        Peaks build(int pixels, double[] noise, double[] baseline, boolean sigmasGiven, boolean clamped) {
             // The pooled scale F (see the class comment), then each fit's scale.
             double pooled = 1;
             boolean perFit = false;
@@ -1020,6 +1029,7 @@ public final class PeakFinder {
                     }
                     double medianDof = Baseline.median(Arrays.stream(dofs).asDoubleStream().toArray(), fits);
                     pooled = Baseline.median(reduced, fits) / reducedChiSquareQuantile(0, (int) Math.round(medianDof));
+                    pooled = clamped ? Math.max(1, pooled) : pooled;
                 } else {
                     perFit = true;
                     pooled = Double.NaN;

@@ -42,6 +42,7 @@ public final class Peaks {
     private final double[] baseline;
     private final int[] unfitted;
     private final boolean pixelSigmasGiven;
+    private final boolean countedPhotons;
     private final double countsPerPhoton;
     private final double clampLevel;
     private final double clampedShare;
@@ -65,12 +66,13 @@ public final class Peaks {
         this.baseline = baseline;
         this.unfitted = unfitted;
         this.pixelSigmasGiven = pixelSigmasGiven;
-        this.countsPerPhoton = Double.NaN;
+        this.countedPhotons = false;
+        this.countsPerPhoton = 1;
         this.clampLevel = Double.NaN;
         this.clampedShare = Double.NaN;
     }
 
-    private Peaks(Peaks p, double countsPerPhoton, double clampLevel, double clampedShare) {
+    private Peaks(Peaks p, boolean countedPhotons, double countsPerPhoton, double clampLevel, double clampedShare) {
         this.pixels = p.pixels;
         this.centre = p.centre;
         this.centreSigma = p.centreSigma;
@@ -87,14 +89,15 @@ public final class Peaks {
         this.baseline = p.baseline;
         this.unfitted = p.unfitted;
         this.pixelSigmasGiven = p.pixelSigmasGiven;
+        this.countedPhotons = countedPhotons;
         this.countsPerPhoton = countsPerPhoton;
         this.clampLevel = clampLevel;
         this.clampedShare = clampedShare;
     }
 
     /** @return a copy that states the noise model's assumptions (see the accessors) */
-    Peaks withNoiseModel(double countsPerPhoton, double clampLevel, double clampedShare) {
-        return new Peaks(this, countsPerPhoton, clampLevel, clampedShare);
+    Peaks withNoiseModel(boolean countedPhotons, double countsPerPhoton, double clampLevel, double clampedShare) {
+        return new Peaks(this, countedPhotons, countsPerPhoton, clampLevel, clampedShare);
     }
 
     /** @return the number of peaks */
@@ -255,11 +258,21 @@ public final class Peaks {
     }
 
     /**
-     * @return for an exposure taken as counted photons (no background noise, every count a whole
-     *         multiple of one step above the lowest), that step: the counts per photon assumed, so
-     *         a pixel's variance is the step times its expected counts (16 for counts that are all
-     *         multiples of 16, 1 for plain whole counts); NaN when the exposure was not taken as
-     *         counted
+     * @return whether the exposure was taken as counted photons: no background noise, every count
+     *         the lowest plus a whole multiple of one step; its Poisson variances are then used
+     *         unscaled ({@link #noiseScale()} 1)
+     */
+    public boolean countedPhotons() {
+        return countedPhotons;
+    }
+
+    /**
+     * @return the counts per photon (or photo-electron) assumed in the pixels' Poisson variance,
+     *         which is this times the line's counts: the step every count is a whole multiple of
+     *         (above the lowest count) when the exposure counted photons or that step exceeds 1
+     *         (16 for counts that are all multiples of 16); otherwise 1, and the pooled
+     *         {@link #noiseScale()} takes up any other gain. Pixel uncertainties given by the caller
+     *         are used as given.
      */
     public double countsPerPhoton() {
         return countsPerPhoton;
