@@ -131,10 +131,10 @@ final class Baseline {
     }
 
     /**
-     * The noise of clamped counts over the whole spectrum (see the class comment).
+     * The noise of clamped counts over the spectrum (see the class comment).
      *
      * @param y         counts
-     * @param saturated saturated pixels (left out), or null
+     * @param saturated pixels left out (saturated, or masked as lines), or null
      * @param clamp     the value the counts are clamped at (their lowest)
      * @param step      the lattice step of the counts, 0 for none
      * @return the noise in counts, 0 when too few pixels lie above the clamp

@@ -299,6 +299,16 @@ public final class PeakFinder {
         firstNoise = Math.max(firstNoise, floor);
         int window = Math.min(baselineWindow, n);
         Baseline.Estimate estimate = Baseline.estimate(counts, saturated, window, firstNoise);
+        for (int pass = 0; pass < 3 && !Double.isNaN(clamp); pass++) {
+            // The first censored estimate read its upper quantile partly on lines and their wings:
+            // again over the pixels the baseline kept, whose mask then tightens, until it settles.
+            double again = Math.max(floor, Baseline.censoredNoise(counts, estimate.mask(), clamp, step));
+            if (Math.abs(again - firstNoise) < 0.02 * firstNoise) {
+                break;
+            }
+            firstNoise = again;
+            estimate = Baseline.estimate(counts, saturated, window, firstNoise);
+        }
         double[] baseline = estimate.baseline();
         // A median of |deviations| over a baseline window (~100 pixels) scatters by some 12 %;
         // the noise changes more slowly than the baseline, so it is taken over wider windows.
@@ -516,7 +526,8 @@ public final class PeakFinder {
             start[k] = startCentre(line, saturated, c);
             halfWindow[k] = Math.max(3, (int) Math.ceil(fitHalfWidth * fwhm[k]));
         }
-        Frame frame = new Frame(counts, sigma, saturated, noise, counted, gain, line, candidates, start, fwhm, halfWindow);
+        Frame frame = new Frame(counts, sigma, saturated, noise, counted, gain, line, candidates, start, fwhm,
+                halfWindow);
         List<int[]> chains = new ArrayList<>();
         int k = 0;
         while (k < m) {
