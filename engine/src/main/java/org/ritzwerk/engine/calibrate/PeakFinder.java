@@ -34,7 +34,12 @@ import java.util.List;
  * is at least threshold times sigma_bg, its flux at least threshold times the flux's own
  * standard uncertainty (which keeps one-pixel noise spikes out), its centre inside its window
  * and its width between 0.15 pixel and half the window; otherwise the weakest offending
- * component is dropped and the rest refitted.
+ * component is dropped and the rest refitted. A second pass refits every chain whose width came
+ * out below half the median fitted width of the spectrum (a fit collapsed
+ * onto two pixels' counts, its centre on their boundary with an uncertainty near 0), or whose fit
+ * failed or had no finite covariance: with that floor, and when it still collapses with the width
+ * held at the median ({@link Peaks#fwhmSigma} 0). A peak whose centroid uncertainty is not finite
+ * and positive is reported unfitted, never returned.
  * Candidates whose fit fails outright are reported in {@link Peaks#unfitted()}.</li>
  * </ol>
  *
@@ -42,7 +47,7 @@ import java.util.List;
  * double[])}) the fit is weighted by them and the centroid's standard uncertainty is the square
  * root of the diagonal of (J^T W J)^-1, not rescaled: the caller's uncertainties are trusted.
  * Without them ({@link #find(double[])}), each pixel is given the Poisson-like variance
- * sigma_bg(i)^2 + max(line counts, 0): the local background noise (measured) plus the line's own
+ * sigma_bg(i)^2 + h max(line counts, 0): the local background noise (measured) plus the line's own
  * counts as if counted in detected photo-electrons (gain 1). The fit is made once with the
  * observed counts in that variance and once more with the fitted model's. Since the gain need
  * not be 1 and the background noise is an estimate, the covariance is then multiplied by the
@@ -53,9 +58,15 @@ import java.util.List;
  * uncertainties by some 20 % and understate them on average (Student's t). With fewer than 5
  * fits each is scaled by its own reduced chi-square instead, but never below 1 (a handful of
  * degrees of freedom may widen the model's variances, not narrow them). {@link Peaks#noiseScale()} reports F.
- * An exposure of whole counts with no background noise counted photons: its variances are its
- * expected counts (gain 1 exactly) and F is 1; the first fit's variance is at least one count there
- * (Neyman's modified chi-square, common practice), or an empty pixel beside a line would pin it.
+ * Counts that all lie on a step h above the lowest (whole photo-electrons times a gain) are
+ * taken as h counts per photo-electron: the line's variance is h times its counts (h above 1
+ * only; a finer step is taken as rounding). An exposure with such a step and no background noise
+ * counted photons: its variances are h times its expected counts and F is 1; the first fit's
+ * variance is at least one photon there (Neyman's modified chi-square, common practice), or an
+ * empty pixel beside a line would pin it, and the second's at least 0.1 photon. Counts clamped at their lowest value (at least a tenth of the pixels
+ * there) take their noise from the pixels above the clamp (see {@code Baseline}), and their F is
+ * at least 1. {@link Peaks#countsPerPhoton()}, {@link Peaks#countedPhotons()} and
+ * {@link Peaks#clampLevel()} report what was assumed.
  *
  * <p><b>Poor fits.</b> In both modes, a fit whose chi-square (over F) exceeds the 99th percentile
  * of the chi-square distribution (Wilson-Hilferty approximation) has its peaks' covariance
@@ -508,8 +519,8 @@ public final class PeakFinder {
      * width (at least {@value #MIN_REFERENCE_FITS} fits; common practice). A chain whose fit
      * collapsed below {@value #WIDTH_FLOOR} s_ref, or whose covariance was singular or not finite,
      * is fitted again with that floor: a fit that still ends below it, or has no finite positive
-     * variances, is refitted with the width held at s_ref (see {@link #withThreshold} for the
-     * acceptance that follows).
+     * variances, is refitted with the width held at s_ref, then accepted as any other (see the
+     * class comment).
      */
     private Peaks fitAll(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
             double gain, boolean clamped, double[] baseline, double[] line, int[] candidates) {
