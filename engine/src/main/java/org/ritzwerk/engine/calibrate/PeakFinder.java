@@ -48,9 +48,9 @@ import java.util.List;
  * root of the diagonal of (J^T W J)^-1, not rescaled: the caller's uncertainties are trusted.
  * Without them ({@link #find(double[])}), each pixel is given the Poisson-like variance
  * sigma_bg(i)^2 + h max(line counts, 0): the local background noise (measured) plus the line's own
- * counts as if counted in detected photo-electrons (gain 1). The fit is made once with the
- * observed counts in that variance and once more with the fitted model's. Since the gain need
- * not be 1 and the background noise is an estimate, the covariance is then multiplied by the
+ * counts as if counted in detected photo-electrons (h counts each, see below). The fit is made
+ * once with the observed counts in that variance and once more with the fitted model's. Since
+ * the gain need not be h and the background noise is an estimate, the covariance is then multiplied by the
  * spectrum's pooled reduced chi-square F: the median over all fits of chi^2 / (n - p), divided by
  * the median of a chi-square variable over its degrees of freedom, (1 - 2/(9 nu))^3 (Wilson and
  * Hilferty, PNAS 17, 684 (1931)), so that F is 1 when the variances are right. One pooled F has
