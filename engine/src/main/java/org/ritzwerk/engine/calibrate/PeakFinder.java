@@ -63,9 +63,9 @@ import java.util.List;
  * only; a finer step is taken as rounding). An exposure with such a step and no background noise
  * counted photons: its variances are h times its expected counts and F is 1; the first fit's
  * variance is at least one photon there (Neyman's modified chi-square, common practice), or an
- * empty pixel beside a line would pin it, and the second's at least 0.1 photon. Counts clamped at their lowest value (at least a tenth of the pixels
- * there) take their noise from the pixels above the clamp (see {@code Baseline}), and their F is
- * at least 1. {@link Peaks#countsPerPhoton()}, {@link Peaks#countedPhotons()} and
+ * empty pixel beside a line would pin it, and the second's at least 0.1 photon. Counts clamped
+ * at their lowest value (at least a tenth of the pixels there) take their noise from the pixels
+ * above the clamp (see {@code Baseline}), and their F is at least 1. {@link Peaks#countsPerPhoton()}, {@link Peaks#countedPhotons()} and
  * {@link Peaks#clampLevel()} report what was assumed.
  *
  * <p><b>Poor fits.</b> In both modes, a fit whose chi-square (over F) exceeds the 99th percentile
