@@ -65,8 +65,8 @@ import java.util.List;
  * variance is at least one photon there (Neyman's modified chi-square, common practice), or an
  * empty pixel beside a line would pin it, and the second's at least 0.1 photon. Counts clamped
  * at their lowest value (at least a tenth of the pixels there) take their noise from the pixels
- * above the clamp (see {@code Baseline}), and their F is at least 1. {@link Peaks#countsPerPhoton()}, {@link Peaks#countedPhotons()} and
- * {@link Peaks#clampLevel()} report what was assumed.
+ * above the clamp (see {@code Baseline}), and their F is at least 1. {@link Peaks#countsPerPhoton()},
+ * {@link Peaks#countedPhotons()} and {@link Peaks#clampLevel()} report what was assumed.
  *
  * <p><b>Poor fits.</b> In both modes, a fit whose chi-square (over F) exceeds the 99th percentile
  * of the chi-square distribution (Wilson-Hilferty approximation) has its peaks' covariance
