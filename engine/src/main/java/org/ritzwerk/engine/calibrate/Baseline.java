@@ -202,7 +202,8 @@ final class Baseline {
             double edge = sorted[i] + step / 2;
             double f = (double) j / count;
             if (f >= q) {
-                return f == previousF ? edge : previousEdge + (q - previousF) / (f - previousF) * (edge - previousEdge);
+                return f == previousF ? edge
+                        : previousEdge + (q - previousF) / (f - previousF) * (edge - previousEdge);
             }
             previousEdge = edge;
             previousF = f;
