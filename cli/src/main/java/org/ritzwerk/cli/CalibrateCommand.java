@@ -422,11 +422,28 @@ final class CalibrateCommand implements Callable<Integer> {
         if (peaks.pixelSigmasGiven()) {
             return "centroid uncertainties from the file's pixel uncertainties";
         }
+        String clamped = Double.isNaN(peaks.clampLevel()) ? "" : String.format(Locale.ROOT,
+                "; counts clamped at %s (%.0f %% of the background pixels): background noise from the pixels"
+                        + " above it", plain(peaks.clampLevel()), 100 * peaks.clampedShare());
+        if (peaks.countedPhotons()) {
+            String step = plain(peaks.countsPerPhoton());
+            return "counted photons: no background noise and counts in steps of " + step + ", so a photon is taken"
+                    + " as " + step + " counts; Poisson variances unscaled";
+        }
         if (Double.isNaN(peaks.noiseScale())) {
             return "too few peaks to pool their scatter: each centroid uncertainty is widened by its own fit's,"
-                    + " never narrowed";
+                    + " never narrowed" + clamped;
         }
-        return String.format(Locale.ROOT, "pixel variance %.3g times the Poisson model's", peaks.noiseScale());
+        String gain = peaks.countsPerPhoton() == 1 ? "" : "; counts in steps of " + plain(peaks.countsPerPhoton())
+                + " taken as that many per photo-electron";
+        return String.format(Locale.ROOT, "pixel variance %.3g times the Poisson model's", peaks.noiseScale())
+                + gain + clamped;
+    }
+
+    /** @return a whole number without decimals, anything else to 6 significant digits */
+    private static String plain(double value) {
+        return value == Math.rint(value) && Math.abs(value) < 1e15 ? Long.toString((long) value)
+                : String.format(Locale.ROOT, "%.6g", value);
     }
 
     private void report(SpectrumFiles.Spectrum spectrum, Calibration calibration) {

@@ -135,7 +135,9 @@ class CalibrateCommandTest {
             assertTrue(run.err().contains("checked by the other lines not at all"), run.err());
             assertTrue(run.out().contains("Solution: degree 1 in air wavelengths, 3 lines used"), run.out());
             assertFalse(run.out().contains("NaN"), run.out());
-            assertTrue(run.out().contains(readNoise.equals("0") ? "(pixel variance 1.00 times the Poisson model's)"
+            assertTrue(run.out().contains(readNoise.equals("0")
+                    ? "(counted photons: no background noise and counts in steps of 1, so a photon is taken as 1"
+                            + " counts"
                     : "(too few peaks to pool their scatter"), run.out());
             DispersionSolution solution = CalibrationFiles.read(out).solution();
             assertEquals(395 + 0.05 * 500, solution.wavelengthAt(500), 3 * solution.wavelengthSigmaAt(500));

@@ -29,7 +29,9 @@ import org.apache.commons.numbers.gamma.ErfDifference;
  * G. A. Watson, Springer, vol. 630, 105-116 (1978), doi:10.1007/BFb0067700) on residuals divided by the pixel standard deviations, so the returned
  * covariance (J^T J)^-1 is that of the weighted problem, unscaled.
  *
- * <p>Parameter vector: {@code [b0, b1, s, A_1, c_1, ..., A_K, c_K]}.
+ * <p>Parameter vector: {@code [b0, b1, s, A_1, c_1, ..., A_K, c_K]}. The width s may be held
+ * fixed ({@link #fitFixedWidth}): it is then left out of the minimisation and its row and column
+ * of the returned covariance are 0.
  */
 final class GaussianBlendFit {
 
@@ -63,26 +65,49 @@ final class GaussianBlendFit {
      */
     static Result fit(double[] x, double[] y, double[] sigma, double[] start, double mid, double half, double lo,
             double hi, double maxWidth) {
+        return fit(x, y, sigma, start, mid, half, lo, hi, maxWidth, false);
+    }
+
+    /**
+     * As {@link #fit}, with the width held at {@code start[WIDTH]}: for a line whose free width
+     * collapsed below what the instrument allows (see {@link PeakFinder}).
+     *
+     * @return the fit (the width's row and column of the covariance are 0), or null as for fit
+     */
+    static Result fitFixedWidth(double[] x, double[] y, double[] sigma, double[] start, double mid, double half,
+            double lo, double hi) {
+        return fit(x, y, sigma, start, mid, half, lo, hi, start[WIDTH], true);
+    }
+
+    private static Result fit(double[] x, double[] y, double[] sigma, double[] full, double mid, double half,
+            double lo, double hi, double maxWidth, boolean fixedWidth) {
         int n = x.length;
-        int p = start.length;
+        int p = full.length;
+        double width = full[WIDTH];
+        // With a fixed width the optimiser sees the parameters without it (r = q less q[WIDTH]).
+        int shift = fixedWidth ? 1 : 0;
+        int pr = p - shift;
+        double[] start = reduce(full, fixedWidth);
         double[] target = new double[n];
         for (int i = 0; i < n; i++) {
             target[i] = y[i] / sigma[i];
         }
         MultivariateJacobianFunction model = point -> {
-            double[] q = point.toArray();
+            double[] q = expand(point.toArray(), fixedWidth, width);
             double[] value = new double[n];
             double[][] jacobian = new double[n][p];
             evaluate(q, x, mid, half, value, jacobian);
+            double[][] reduced = new double[n][];
             for (int i = 0; i < n; i++) {
                 double w = 1 / sigma[i];
                 value[i] *= w;
                 for (int j = 0; j < p; j++) {
                     jacobian[i][j] *= w;
                 }
+                reduced[i] = reduce(jacobian[i], fixedWidth);
             }
             return new Pair<RealVector, RealMatrix>(new ArrayRealVector(value, false),
-                    new Array2DRowRealMatrix(jacobian, false));
+                    new Array2DRowRealMatrix(reduced, false));
         };
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .start(start)
@@ -91,8 +116,10 @@ final class GaussianBlendFit {
                 .parameterValidator(point -> {
                     // Keep the width positive and the centres near their window, so that a
                     // wandering step cannot leave the data; a fit pinned there is refused later.
-                    point.setEntry(WIDTH, Math.min(maxWidth, Math.max(MIN_WIDTH, point.getEntry(WIDTH))));
-                    for (int j = FIRST + 1; j < p; j += 2) {
+                    if (!fixedWidth) {
+                        point.setEntry(WIDTH, Math.min(maxWidth, Math.max(MIN_WIDTH, point.getEntry(WIDTH))));
+                    }
+                    for (int j = FIRST + 1 - shift; j < pr; j += 2) {
                         point.setEntry(j, Math.min(hi + 1, Math.max(lo - 1, point.getEntry(j))));
                     }
                     return point;
@@ -107,13 +134,41 @@ final class GaussianBlendFit {
                 .withOrthoTolerance(1e-12);
         try {
             LeastSquaresOptimizer.Optimum optimum = optimizer.optimize(problem);
-            double[] q = optimum.getPoint().toArray();
-            double[][] covariance = optimum.getCovariances(1e-14).getData();
+            double[] q = expand(optimum.getPoint().toArray(), fixedWidth, width);
+            double[][] reducedCovariance = optimum.getCovariances(1e-14).getData();
+            double[][] covariance = new double[p][];
+            for (int j = 0; j < p; j++) {
+                covariance[j] = fixedWidth && j == WIDTH ? new double[p]
+                        : expand(reducedCovariance[j - (fixedWidth && j > WIDTH ? 1 : 0)], fixedWidth, 0);
+            }
             double chiSquare = optimum.getResiduals().dotProduct(optimum.getResiduals());
             return new Result(q, covariance, chiSquare, n);
         } catch (MathIllegalStateException | SingularMatrixException e) {
             return null;
         }
+    }
+
+    /** The parameters without the width when it is fixed, else a copy. */
+    private static double[] reduce(double[] q, boolean fixedWidth) {
+        if (!fixedWidth) {
+            return q.clone();
+        }
+        double[] r = new double[q.length - 1];
+        System.arraycopy(q, 0, r, 0, WIDTH);
+        System.arraycopy(q, WIDTH + 1, r, WIDTH, q.length - WIDTH - 1);
+        return r;
+    }
+
+    /** The full parameters from reduced ones, the width (or its covariance entry) set to {@code width}. */
+    private static double[] expand(double[] r, boolean fixedWidth, double width) {
+        if (!fixedWidth) {
+            return r.clone();
+        }
+        double[] q = new double[r.length + 1];
+        System.arraycopy(r, 0, q, 0, WIDTH);
+        q[WIDTH] = width;
+        System.arraycopy(r, WIDTH, q, WIDTH + 1, r.length - WIDTH);
+        return q;
     }
 
     /**

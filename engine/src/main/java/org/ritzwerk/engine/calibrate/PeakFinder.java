@@ -34,7 +34,12 @@ import java.util.List;
  * is at least threshold times sigma_bg, its flux at least threshold times the flux's own
  * standard uncertainty (which keeps one-pixel noise spikes out), its centre inside its window
  * and its width between 0.15 pixel and half the window; otherwise the weakest offending
- * component is dropped and the rest refitted.
+ * component is dropped and the rest refitted. A second pass refits every chain whose width came
+ * out below half the median fitted width of the spectrum (a fit collapsed
+ * onto two pixels' counts, its centre on their boundary with an uncertainty near 0), or whose fit
+ * failed or had no finite covariance: with that floor, and when it still collapses with the width
+ * held at the median ({@link Peaks#fwhmSigma} 0). A peak whose centroid uncertainty is not finite
+ * and positive is reported unfitted, never returned.
  * Candidates whose fit fails outright are reported in {@link Peaks#unfitted()}.</li>
  * </ol>
  *
@@ -42,10 +47,10 @@ import java.util.List;
  * double[])}) the fit is weighted by them and the centroid's standard uncertainty is the square
  * root of the diagonal of (J^T W J)^-1, not rescaled: the caller's uncertainties are trusted.
  * Without them ({@link #find(double[])}), each pixel is given the Poisson-like variance
- * sigma_bg(i)^2 + max(line counts, 0): the local background noise (measured) plus the line's own
- * counts as if counted in detected photo-electrons (gain 1). The fit is made once with the
- * observed counts in that variance and once more with the fitted model's. Since the gain need
- * not be 1 and the background noise is an estimate, the covariance is then multiplied by the
+ * sigma_bg(i)^2 + h max(line counts, 0): the local background noise (measured) plus the line's own
+ * counts as if counted in detected photo-electrons (h counts each, see below). The fit is made
+ * once with the observed counts in that variance and once more with the fitted model's. Since
+ * the gain need not be h and the background noise is an estimate, the covariance is then multiplied by the
  * spectrum's pooled reduced chi-square F: the median over all fits of chi^2 / (n - p), divided by
  * the median of a chi-square variable over its degrees of freedom, (1 - 2/(9 nu))^3 (Wilson and
  * Hilferty, PNAS 17, 684 (1931)), so that F is 1 when the variances are right. One pooled F has
@@ -53,9 +58,15 @@ import java.util.List;
  * uncertainties by some 20 % and understate them on average (Student's t). With fewer than 5
  * fits each is scaled by its own reduced chi-square instead, but never below 1 (a handful of
  * degrees of freedom may widen the model's variances, not narrow them). {@link Peaks#noiseScale()} reports F.
- * An exposure of whole counts with no background noise counted photons: its variances are its
- * expected counts (gain 1 exactly) and F is 1; the first fit's variance is at least one count there
- * (Neyman's modified chi-square, common practice), or an empty pixel beside a line would pin it.
+ * Counts that all lie on a step h above the lowest (whole photo-electrons times a gain) are
+ * taken as h counts per photo-electron: the line's variance is h times its counts (h above 1
+ * only; a finer step is taken as rounding). An exposure with such a step and no background noise
+ * counted photons: its variances are h times its expected counts and F is 1; the first fit's
+ * variance is at least one photon there (Neyman's modified chi-square, common practice), or an
+ * empty pixel beside a line would pin it, and the second's at least 0.1 photon. Counts clamped
+ * at their lowest value (at least a tenth of the pixels there) take their noise from the pixels
+ * above the clamp (see {@code Baseline}), and their F is at least 1. {@link Peaks#countsPerPhoton()},
+ * {@link Peaks#countedPhotons()} and {@link Peaks#clampLevel()} report what was assumed.
  *
  * <p><b>Poor fits.</b> In both modes, a fit whose chi-square (over F) exceeds the 99th percentile
  * of the chi-square distribution (Wilson-Hilferty approximation) has its peaks' covariance
@@ -96,6 +107,26 @@ public final class PeakFinder {
     private static final double FWHM_PER_SIGMA = 2 * Math.sqrt(2 * Math.log(2));
     private static final double SQRT_2PI = Math.sqrt(2 * Math.PI);
     private static final double MIN_WIDTH = 0.15;
+    /**
+     * The narrowest width a line may take, as a share of the spectrum's median fitted width: a
+     * profile half as wide as the instrument's is no line (a noise spike, or a fit collapsed onto
+     * two pixels' counts, which puts its centre on their boundary with an absurdly small
+     * uncertainty). A choice, not a measured constant: widths across one detector rarely vary by
+     * a factor two between neighbours.
+     */
+    static final double WIDTH_FLOOR = 0.5;
+    /**
+     * Least variance, in photons, of a counted pixel in a fit with the model's variances. A count
+     * of 1 where the model expects m near 0 costs (1 - m)^2 / m in chi-square, without bound,
+     * where Poisson's likelihood costs only log(1/m): the floor caps it near 8 (a choice; an
+     * empty pixel costs nothing either way, and pixels expecting less than 0.1 photon carry
+     * little of a centroid's information).
+     */
+    static final double LEAST_PHOTONS = 0.1;
+    /** Fewest first-pass fits whose median width sets the floor. */
+    static final int MIN_REFERENCE_FITS = 3;
+    /** Share of the pixels at the lowest value from which a spectrum counts as clamped there. */
+    static final double CLAMPED_SHARE = 0.1;
     private static final double MAX_FWHM_ESTIMATE = 50;
 
     private final double threshold;
@@ -256,41 +287,75 @@ public final class PeakFinder {
         // A noiseless spectrum has no noise to measure: a floor far below any count keeps the
         // variances positive, and every local maximum then counts.
         double floor = 1e-12 * largest;
+        double step = Baseline.latticeStep(counts, saturated);
+        boolean counted = firstNoise <= floor && step > 0;
+        // Clamped: not counted, and at least CLAMPED_SHARE of the pixels sit exactly at the lowest
+        // value (negative counts set to 0 after a dark subtraction). The MAD of a sample more than
+        // half of whose values are tied is 0; the noise then comes from the pixels above the clamp.
+        double clamp = Double.NaN;
+        if (!counted) {
+            double lowest = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < n; i++) {
+                lowest = saturated[i] ? lowest : Math.min(lowest, counts[i]);
+            }
+            int at = 0;
+            for (int i = 0; i < n; i++) {
+                at += !saturated[i] && counts[i] == lowest ? 1 : 0;
+            }
+            if (at >= CLAMPED_SHARE * (n - saturatedCount)) {
+                clamp = lowest;
+                firstNoise = Baseline.censoredNoise(counts, saturated, clamp, step);
+            }
+        }
         firstNoise = Math.max(firstNoise, floor);
         int window = Math.min(baselineWindow, n);
         Baseline.Estimate estimate = Baseline.estimate(counts, saturated, window, firstNoise);
+        for (int pass = 0; pass < 3 && !Double.isNaN(clamp); pass++) {
+            // The first censored estimate read its upper quantile partly on lines and their wings:
+            // again over the pixels the baseline kept, whose mask then tightens, until it settles.
+            double again = Math.max(floor, Baseline.censoredNoise(counts, estimate.mask(), clamp, step));
+            if (Math.abs(again - firstNoise) < 0.02 * firstNoise) {
+                break;
+            }
+            firstNoise = again;
+            estimate = Baseline.estimate(counts, saturated, window, firstNoise);
+        }
         double[] baseline = estimate.baseline();
         // A median of |deviations| over a baseline window (~100 pixels) scatters by some 12 %;
         // the noise changes more slowly than the baseline, so it is taken over wider windows.
         int noiseWindow = Math.min(n, Math.max(4 * window, n / 8));
-        double[] noise = Baseline.localNoise(counts, estimate, noiseWindow, firstNoise);
+        double[] noise = Double.isNaN(clamp) ? Baseline.localNoise(counts, estimate, noiseWindow, firstNoise)
+                : Baseline.localCensoredNoise(counts, estimate, noiseWindow, firstNoise, clamp, step);
         double[] line = new double[n];
         for (int i = 0; i < n; i++) {
             noise[i] = Math.max(noise[i], floor);
             line[i] = counts[i] - baseline[i];
         }
         double[] smooth = smooth(line, smoothing);
-        int[] candidates = candidates(line, smooth, saturated, sigma, noise);
-        return fitAll(counts, sigma, saturated, noise, countedPhotons(counts, firstNoise, floor), baseline, line,
+        // Counts that all share a common step above 1 (whole photo-electrons times a gain) carry a
+        // Poisson variance of that step times their counts; otherwise gain 1 is assumed and the
+        // pooled scale F takes up the difference.
+        double gain = counted || step > 1 ? step : 1;
+        int[] candidates = candidates(line, smooth, saturated, sigma, noise, gain);
+        Peaks found = fitAll(counts, sigma, saturated, noise, counted, gain, !Double.isNaN(clamp), baseline, line,
                 candidates);
+        return found.withNoiseModel(counted, gain, clamp, clampedShare(counts, estimate, clamp));
     }
 
-    /**
-     * Whether the exposure counted photons: whole counts and no background noise (the first
-     * difference noise measured zero). Its pixel variances are then its expected counts exactly
-     * (Poisson, gain 1), and no pooled scale is applied: in the empty wings of its lines the
-     * chi-square terms are mostly 0 and rarely huge, and a median of them says nothing.
-     */
-    private static boolean countedPhotons(double[] counts, double firstNoise, double floor) {
-        if (firstNoise > floor) {
-            return false;
+    /** The share of the baseline's unmasked pixels that sit at the clamp, or NaN when not clamped. */
+    private static double clampedShare(double[] counts, Baseline.Estimate estimate, double clamp) {
+        if (Double.isNaN(clamp)) {
+            return Double.NaN;
         }
-        for (double c : counts) {
-            if (c != Math.rint(c)) {
-                return false;
+        int at = 0;
+        int all = 0;
+        for (int i = 0; i < counts.length; i++) {
+            if (!estimate.mask()[i]) {
+                all++;
+                at += counts[i] == clamp ? 1 : 0;
             }
         }
-        return true;
+        return all == 0 ? Double.NaN : (double) at / all;
     }
 
     private void check(double[] counts, double[] sigma) {
@@ -360,11 +425,16 @@ public final class PeakFinder {
         return out;
     }
 
-    private static double localSigma(double[] sigma, double[] noise, double lineCounts, int i) {
-        return sigma != null ? sigma[i] : Math.sqrt(noise[i] * noise[i] + Math.max(0, lineCounts));
+    /**
+     * A pixel's standard deviation: the caller's, or the background noise and the line's Poisson
+     * variance, gain times its counts (gain the counts per photon: 1 unless counted, see find).
+     */
+    private static double localSigma(double[] sigma, double[] noise, double lineCounts, int i, double gain) {
+        return sigma != null ? sigma[i] : Math.sqrt(noise[i] * noise[i] + gain * Math.max(0, lineCounts));
     }
 
-    private int[] candidates(double[] line, double[] smooth, boolean[] saturated, double[] sigma, double[] noise) {
+    private int[] candidates(double[] line, double[] smooth, boolean[] saturated, double[] sigma, double[] noise,
+            double gain) {
         int n = line.length;
         List<Integer> found = new ArrayList<>();
         for (int i = 1; i + 1 < n; i++) {
@@ -389,7 +459,7 @@ public final class PeakFinder {
                 }
                 boolean aLower = smooth[a] < smooth[b];
                 int lower = aLower ? a : b;
-                if (flat || smooth[lower] - dip < PROMINENCE * localSigma(sigma, noise, smooth[lower], lower)) {
+                if (flat || smooth[lower] - dip < PROMINENCE * localSigma(sigma, noise, smooth[lower], lower, gain)) {
                     found.remove(aLower ? k : k + 1);
                     merged = true;
                     break;
@@ -437,8 +507,23 @@ public final class PeakFinder {
         return Math.max(1, Math.min(MAX_FWHM_ESTIMATE, hi - lo));
     }
 
+    /** What every fit of one spectrum reads: the counts and their noise model, and the candidates. */
+    private record Frame(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
+            double gain,
+            double[] line, int[] candidates, double[] start, double[] fwhm, int[] halfWindow) {
+    }
+
+    /**
+     * Fits every chain of overlapping candidates twice if need be. The first pass allows any width
+     * from {@value #MIN_WIDTH} pixel up. Its fits give the instrument's width s_ref, their median
+     * width (at least {@value #MIN_REFERENCE_FITS} fits; common practice). A chain whose fit
+     * collapsed below {@value #WIDTH_FLOOR} s_ref, or whose covariance was singular or not finite,
+     * is fitted again with that floor: a fit that still ends below it, or has no finite positive
+     * variances, is refitted with the width held at s_ref, then accepted as any other (see the
+     * class comment).
+     */
     private Peaks fitAll(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
-            double[] baseline, double[] line, int[] candidates) {
+            double gain, boolean clamped, double[] baseline, double[] line, int[] candidates) {
         int n = counts.length;
         int m = candidates.length;
         double[] fwhm = new double[m];
@@ -452,22 +537,44 @@ public final class PeakFinder {
             start[k] = startCentre(line, saturated, c);
             halfWindow[k] = Math.max(3, (int) Math.ceil(fitHalfWidth * fwhm[k]));
         }
-        Collector out = new Collector(m, counted);
+        Frame frame = new Frame(counts, sigma, saturated, noise, counted, gain, line, candidates, start, fwhm,
+                halfWindow);
+        List<int[]> chains = new ArrayList<>();
         int k = 0;
         while (k < m) {
             int end = k + 1;
             while (end < m && candidates[end] - halfWindow[end] <= candidates[end - 1] + halfWindow[end - 1]) {
                 end++;
             }
-            fitChain(k, end, counts, sigma, saturated, noise, line, candidates, start, fwhm, halfWindow, out);
+            chains.add(new int[] {k, end});
             k = end;
         }
-        return out.build(n, noise, baseline, sigma != null);
+        Collector[] parts = new Collector[chains.size()];
+        double[] widths = new double[m];
+        int fitted = 0;
+        for (int c = 0; c < parts.length; c++) {
+            parts[c] = new Collector(chains.get(c)[1] - chains.get(c)[0], counted);
+            fitChain(chains.get(c)[0], chains.get(c)[1], frame, MIN_WIDTH, Double.NaN, parts[c]);
+            for (int f = 0; f < parts[c].fits; f++) {
+                widths[fitted++] = parts[c].fitWidth[f];
+            }
+        }
+        double reference = fitted >= MIN_REFERENCE_FITS ? Baseline.median(widths, fitted) : Double.NaN;
+        double floor = Double.isNaN(reference) ? MIN_WIDTH : Math.max(MIN_WIDTH, WIDTH_FLOOR * reference);
+        Collector out = new Collector(m, counted);
+        for (int c = 0; c < parts.length; c++) {
+            if (!Double.isNaN(reference) && (parts[c].degenerate || parts[c].narrowest() < floor)) {
+                parts[c] = new Collector(chains.get(c)[1] - chains.get(c)[0], counted);
+                fitChain(chains.get(c)[0], chains.get(c)[1], frame, floor, reference, parts[c]);
+            }
+            out.absorb(parts[c]);
+        }
+        return out.build(n, noise, baseline, sigma != null, clamped);
     }
 
     /** Splits a chain of overlapping candidates [from, to) into blends of at most maxBlend. */
-    private void fitChain(int from, int to, double[] counts, double[] sigma, boolean[] saturated, double[] noise,
-            double[] line, int[] candidates, double[] start, double[] fwhm, int[] halfWindow, Collector out) {
+    private void fitChain(int from, int to, Frame frame, double floor, double reference, Collector out) {
+        int[] candidates = frame.candidates();
         if (to - from > maxBlend) {
             int cut = from + 1;
             int widest = -1;
@@ -478,15 +585,15 @@ public final class PeakFinder {
                     cut = k;
                 }
             }
-            fitChain(from, cut, counts, sigma, saturated, noise, line, candidates, start, fwhm, halfWindow, out);
-            fitChain(cut, to, counts, sigma, saturated, noise, line, candidates, start, fwhm, halfWindow, out);
+            fitChain(from, cut, frame, floor, reference, out);
+            fitChain(cut, to, frame, floor, reference, out);
             return;
         }
         List<Integer> members = new ArrayList<>();
         for (int k = from; k < to; k++) {
             members.add(k);
         }
-        fitBlend(members, counts, sigma, saturated, noise, line, candidates, start, fwhm, halfWindow, out);
+        fitBlend(members, frame, floor, reference, out);
     }
 
     private static double startCentre(double[] line, boolean[] saturated, int c) {
@@ -516,8 +623,60 @@ public final class PeakFinder {
         return c + Math.max(-0.5, Math.min(0.5, shift));
     }
 
-    private void fitBlend(List<Integer> members, double[] counts, double[] sigma, boolean[] saturated, double[] noise,
-            double[] line, int[] candidates, double[] start, double[] fwhm, int[] halfWindow, Collector out) {
+    /**
+     * A fit with the variances modelled from the observed counts (s, kept), then, when the caller
+     * gave none, once more with the line's Poisson variance from the fitted model, not the noisy data.
+     */
+    private static GaussianBlendFit.Result fitTwice(double[] x, double[] y, double[] s, double[] q0, double mid,
+            double half, int lo, int hi, double maxWidth, boolean fixedWidth, Frame frame) {
+        GaussianBlendFit.Result fit = fixedWidth ? GaussianBlendFit.fitFixedWidth(x, y, s, q0, mid, half, lo, hi)
+                : GaussianBlendFit.fit(x, y, s, q0, mid, half, lo, hi, maxWidth);
+        if (fit == null || frame.sigma() != null) {
+            return fit;
+        }
+        double[] noise = frame.noise();
+        double[] model = new double[x.length];
+        // Counted photons: no pixel's variance below one photon's (gain^2 counts^2), as in the first
+        // pass; the model's far wings would otherwise weigh an empty pixel as known to 1e-11 counts
+        // and a stray count there as a chi-square of 1e20, which pins the fit.
+        double least = frame.counted() ? LEAST_PHOTONS * frame.gain() * frame.gain() : 0;
+        for (int i = 0; i < x.length; i++) {
+            int pixel = (int) x[i];
+            model[i] = Math.sqrt(noise[pixel] * noise[pixel]
+                    + Math.max(least, frame.gain() * Math.max(0, GaussianBlendFit.linesAt(fit.parameters(), x[i]))));
+        }
+        return fixedWidth ? GaussianBlendFit.fitFixedWidth(x, y, model, fit.parameters(), mid, half, lo, hi)
+                : GaussianBlendFit.fit(x, y, model, fit.parameters(), mid, half, lo, hi, maxWidth);
+    }
+
+    /** Whether every flux and centre of a fit has a finite, positive variance. */
+    private static boolean finiteVariances(GaussianBlendFit.Result fit, int kCount) {
+        double[][] c = fit.covariance();
+        for (int j = 0; j < 2 * kCount; j++) {
+            double v = c[GaussianBlendFit.FIRST + j][GaussianBlendFit.FIRST + j];
+            if (!(v > 0) || Double.isInfinite(v)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * Fits one blend; drops its weakest member and refits while a member fails (see the class
+     * comment). With a reference width (the second pass), a fit whose width ends below the floor or
+     * whose covariance is not finite is refitted with the width held at the reference.
+     */
+    private void fitBlend(List<Integer> members, Frame frame, double floor, double reference, Collector out) {
+        double[] counts = frame.counts();
+        double[] sigma = frame.sigma();
+        boolean[] saturated = frame.saturated();
+        double[] noise = frame.noise();
+        double[] line = frame.line();
+        int[] candidates = frame.candidates();
+        double[] start = frame.start();
+        double[] fwhm = frame.fwhm();
+        int[] halfWindow = frame.halfWindow();
+        double gain = frame.gain();
         int n = counts.length;
         while (!members.isEmpty()) {
             int first = members.get(0);
@@ -553,7 +712,7 @@ public final class PeakFinder {
                     // First pass: the observed counts stand in for the line's Poisson variance, at
                     // least one count (Neyman's modified chi-square, common practice): a pixel with no
                     // counts where the line still puts some would otherwise pin the fit.
-                    s[u] = localSigma(sigma, noise, Math.max(1, line[i]), i);
+                    s[u] = localSigma(sigma, noise, Math.max(gain, line[i]), i, gain);
                     u++;
                 }
             }
@@ -573,17 +732,24 @@ public final class PeakFinder {
             double mid = 0.5 * (lo + hi);
             double half = Math.max(1, 0.5 * (hi - lo));
             double maxWidth = Math.max(1, 0.5 * (hi - lo));
-            GaussianBlendFit.Result fit = GaussianBlendFit.fit(x, y, s, q0, mid, half, lo, hi, maxWidth);
-            if (fit != null && sigma == null) {
-                // Second pass: the line's Poisson variance from the fitted model, not the noisy data.
-                for (int i = 0; i < used; i++) {
-                    int pixel = (int) x[i];
-                    s[i] = Math.sqrt(noise[pixel] * noise[pixel]
-                            + Math.max(0, GaussianBlendFit.linesAt(fit.parameters(), x[i])));
+            GaussianBlendFit.Result fit = fitTwice(x, y, s, q0, mid, half, lo, hi, maxWidth, false, frame);
+            boolean fixed = false;
+            if (fit == null || !finiteVariances(fit, kCount)) {
+                out.degenerate = true;
+            }
+            if (!Double.isNaN(reference) && (fit == null || fit.parameters()[GaussianBlendFit.WIDTH] < floor
+                    || !finiteVariances(fit, kCount))) {
+                q0[GaussianBlendFit.WIDTH] = reference;
+                for (int j = 0; j < kCount; j++) {
+                    int a = GaussianBlendFit.FIRST + 2 * j;
+                    q0[a] = Math.max(line[candidates[members.get(j)]], noise[candidates[members.get(j)]])
+                            * reference * SQRT_2PI;
                 }
-                GaussianBlendFit.Result again = GaussianBlendFit.fit(x, y, s, fit.parameters(), mid, half, lo, hi,
-                        maxWidth);
-                fit = again;
+                fit = fitTwice(x, y, s, q0, mid, half, lo, hi, maxWidth, true, frame);
+                fixed = true;
+            }
+            if (fit != null && !finiteVariances(fit, kCount)) {
+                fit = null;
             }
             if (fit == null) {
                 if (kCount == 1) {
@@ -597,7 +763,7 @@ public final class PeakFinder {
             }
             double[] q = fit.parameters();
             double s0 = q[GaussianBlendFit.WIDTH];
-            boolean widthOk = s0 > MIN_WIDTH * 1.0001 && s0 < maxWidth * 0.9999;
+            boolean widthOk = fixed || (s0 > floor * 1.0001 && s0 < maxWidth * 0.9999);
             // The weakest offending component goes first; a bad width condemns the weakest of all.
             int drop = -1;
             boolean failure = false;
@@ -619,7 +785,7 @@ public final class PeakFinder {
             }
             if (drop < 0) {
                 int dof = fit.points() - p;
-                int group = out.newFit(fit.chiSquare(), dof);
+                int group = out.newFit(fit.chiSquare(), dof, fixed ? Double.POSITIVE_INFINITY : s0);
                 for (int j = 0; j < kCount; j++) {
                     int a = GaussianBlendFit.FIRST + 2 * j;
                     double flux = q[a];
@@ -786,7 +952,11 @@ public final class PeakFinder {
         private int size;
         private double[] fitChiSquare = new double[8];
         private int[] fitDof = new int[8];
+        /** Each fit's width s in pixels; +infinity where it was held fixed. */
+        private double[] fitWidth = new double[8];
         private int fits;
+        /** Whether a fit failed or had a covariance without finite, positive variances. */
+        private boolean degenerate;
         private int[] unfitted = new int[4];
         private int unfittedSize;
 
@@ -801,14 +971,41 @@ public final class PeakFinder {
         }
 
         /** @return the index of a new fit */
-        int newFit(double chiSquare, int dof) {
+        int newFit(double chiSquare, int dof, double width) {
             if (fits == fitDof.length) {
                 fitChiSquare = Arrays.copyOf(fitChiSquare, 2 * fits);
                 fitDof = Arrays.copyOf(fitDof, 2 * fits);
+                fitWidth = Arrays.copyOf(fitWidth, 2 * fits);
             }
             fitChiSquare[fits] = chiSquare;
             fitDof[fits] = dof;
+            fitWidth[fits] = width;
             return fits++;
+        }
+
+        /** @return the smallest free width of the fits, +infinity when none */
+        double narrowest() {
+            double narrowest = Double.POSITIVE_INFINITY;
+            for (int f = 0; f < fits; f++) {
+                narrowest = Math.min(narrowest, fitWidth[f]);
+            }
+            return narrowest;
+        }
+
+        /** Appends another collector's fits, peaks and unfitted candidates. */
+        void absorb(Collector other) {
+            int offset = fits;
+            for (int f = 0; f < other.fits; f++) {
+                newFit(other.fitChiSquare[f], other.fitDof[f], other.fitWidth[f]);
+            }
+            for (int r = 0; r < other.size; r++) {
+                double[][] c = other.columns;
+                add(offset + other.fitOf[r], c[0][r], c[1][r], c[2][r], c[3][r], c[4][r], c[5][r], c[6][r],
+                        other.flags[r], c[7][r]);
+            }
+            for (int u = 0; u < other.unfittedSize; u++) {
+                unfitted(other.unfitted[u]);
+            }
         }
 
         void add(int fit, double centre, double centreVariance, double flux, double fluxVariance, double height,
@@ -836,7 +1033,12 @@ public final class PeakFinder {
             unfitted[unfittedSize++] = pixel;
         }
 
-        Peaks build(int pixels, double[] noise, double[] baseline, boolean sigmasGiven) {
+        /**
+         * @param clamped whether the counts were clamped: the pooled scale is then at least 1, since
+         *                the clamped pixels in the fits' wings scatter less than the background noise
+         *                and would narrow every uncertainty
+         */
+        Peaks build(int pixels, double[] noise, double[] baseline, boolean sigmasGiven, boolean clamped) {
             // The pooled scale F (see the class comment), then each fit's scale.
             double pooled = 1;
             boolean perFit = false;
@@ -849,6 +1051,7 @@ public final class PeakFinder {
                     }
                     double medianDof = Baseline.median(Arrays.stream(dofs).asDoubleStream().toArray(), fits);
                     pooled = Baseline.median(reduced, fits) / reducedChiSquareQuantile(0, (int) Math.round(medianDof));
+                    pooled = clamped ? Math.max(1, pooled) : pooled;
                 } else {
                     perFit = true;
                     pooled = Double.NaN;
@@ -869,10 +1072,20 @@ public final class PeakFinder {
                     scale[f] = pooled;
                 }
             }
+            // No peak leaves without a finite, positive centroid uncertainty (a fit scaled by an
+            // infinite or zero chi-square): such a peak is reported unfitted instead.
+            int kept = 0;
             Integer[] order = new Integer[size];
             for (int i = 0; i < size; i++) {
-                order[i] = i;
+                double variance = columns[1][i] * scale[fitOf[i]];
+                if (variance > 0 && Double.isFinite(variance) && Double.isFinite(columns[0][i])) {
+                    order[kept++] = i;
+                } else {
+                    unfitted((int) Math.max(0, Math.min(pixels - 1, Math.round(columns[0][i]))));
+                }
             }
+            order = Arrays.copyOf(order, kept);
+            int size = kept;
             double[] centres = columns[0];
             Arrays.sort(order, (a, b) -> Double.compare(centres[a], centres[b]));
             double[][] sorted = new double[columns.length + 1][size];

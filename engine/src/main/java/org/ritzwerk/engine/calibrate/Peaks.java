@@ -42,6 +42,10 @@ public final class Peaks {
     private final double[] baseline;
     private final int[] unfitted;
     private final boolean pixelSigmasGiven;
+    private final boolean countedPhotons;
+    private final double countsPerPhoton;
+    private final double clampLevel;
+    private final double clampedShare;
 
     Peaks(int pixels, double[] centre, double[] centreSigma, double[] flux, double[] fluxSigma, double[] height,
             double[] fwhm, double[] fwhmSigma, double[] signalToNoise, double[] reducedChiSquare, int[] flags,
@@ -62,6 +66,38 @@ public final class Peaks {
         this.baseline = baseline;
         this.unfitted = unfitted;
         this.pixelSigmasGiven = pixelSigmasGiven;
+        this.countedPhotons = false;
+        this.countsPerPhoton = 1;
+        this.clampLevel = Double.NaN;
+        this.clampedShare = Double.NaN;
+    }
+
+    private Peaks(Peaks p, boolean countedPhotons, double countsPerPhoton, double clampLevel, double clampedShare) {
+        this.pixels = p.pixels;
+        this.centre = p.centre;
+        this.centreSigma = p.centreSigma;
+        this.flux = p.flux;
+        this.fluxSigma = p.fluxSigma;
+        this.height = p.height;
+        this.fwhm = p.fwhm;
+        this.fwhmSigma = p.fwhmSigma;
+        this.signalToNoise = p.signalToNoise;
+        this.reducedChiSquare = p.reducedChiSquare;
+        this.flags = p.flags;
+        this.noise = p.noise;
+        this.noiseScale = p.noiseScale;
+        this.baseline = p.baseline;
+        this.unfitted = p.unfitted;
+        this.pixelSigmasGiven = p.pixelSigmasGiven;
+        this.countedPhotons = countedPhotons;
+        this.countsPerPhoton = countsPerPhoton;
+        this.clampLevel = clampLevel;
+        this.clampedShare = clampedShare;
+    }
+
+    /** @return a copy that states the noise model's assumptions (see the accessors) */
+    Peaks withNoiseModel(boolean countedPhotons, double countsPerPhoton, double clampLevel, double clampedShare) {
+        return new Peaks(this, countedPhotons, countsPerPhoton, clampLevel, clampedShare);
     }
 
     /** @return the number of peaks */
@@ -200,7 +236,8 @@ public final class Peaks {
     /**
      * @return the pooled reduced chi-square F by which the modelled pixel variances were scaled
      *         (near 1 when the Poisson-like model with gain 1 fits); 1 when the caller gave pixel
-     *         uncertainties or the exposure counted photons (whole counts, no background noise);
+     *         uncertainties or the exposure counted photons (no background noise, see
+     *         {@link #countsPerPhoton()});
      *         NaN when there were too few fits to pool and each was scaled by its own
      */
     public double noiseScale() {
@@ -218,6 +255,45 @@ public final class Peaks {
      */
     public int[] unfitted() {
         return unfitted.clone();
+    }
+
+    /**
+     * @return whether the exposure was taken as counted photons: no background noise, every count
+     *         the lowest plus a whole multiple of one step; its Poisson variances are then used
+     *         unscaled ({@link #noiseScale()} 1)
+     */
+    public boolean countedPhotons() {
+        return countedPhotons;
+    }
+
+    /**
+     * @return the counts per photon (or photo-electron) assumed in the pixels' Poisson variance,
+     *         which is this times the line's counts: the step every count is a whole multiple of
+     *         (above the lowest count) when the exposure counted photons or that step exceeds 1
+     *         (16 for counts that are all multiples of 16); otherwise 1, and the pooled
+     *         {@link #noiseScale()} takes up any other gain. Pixel uncertainties given by the caller
+     *         are used as given.
+     */
+    public double countsPerPhoton() {
+        return countsPerPhoton;
+    }
+
+    /**
+     * @return the value at which the counts were found clamped (at least a tenth of the pixels hold
+     *         exactly the lowest value, as when negative counts after a dark subtraction are set to
+     *         0), whose background noise was then estimated from the pixels above it; NaN when not
+     *         clamped
+     */
+    public double clampLevel() {
+        return clampLevel;
+    }
+
+    /**
+     * @return the share of the background pixels (those the baseline kept) at {@link #clampLevel()},
+     *         0 to 1; NaN when not clamped
+     */
+    public double clampedShare() {
+        return clampedShare;
     }
 
     /**
