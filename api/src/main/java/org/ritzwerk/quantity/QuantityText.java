@@ -333,21 +333,7 @@ public final class QuantityText {
         }
 
         private Quantity build(double value, double uncertainty, Unit unit, Medium medium) {
-            boolean stated = !Double.isNaN(uncertainty);
-            switch (unit.kind()) {
-                case WAVELENGTH: {
-                    Medium m = medium == null ? Medium.vacuum() : medium;
-                    return stated ? Wavelength.of(value, uncertainty, unit, m) : Wavelength.of(value, unit, m);
-                }
-                case WAVENUMBER:
-                    return stated ? Wavenumber.of(value, uncertainty, unit) : Wavenumber.of(value, unit);
-                case FREQUENCY:
-                    return stated ? Frequency.of(value, uncertainty, unit) : Frequency.of(value, unit);
-                case ENERGY:
-                    return stated ? Energy.of(value, uncertainty, unit) : Energy.of(value, unit);
-                default:
-                    return stated ? Temperature.of(value, uncertainty, unit) : Temperature.of(value, unit);
-            }
+            return Quantity.of(value, uncertainty, unit, medium);
         }
 
         private int exponentOf(String exponentText) {

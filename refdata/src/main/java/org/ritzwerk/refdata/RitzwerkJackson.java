@@ -550,20 +550,7 @@ public final class RitzwerkJackson {
         }
 
         private static Quantity create(double value, double uncertainty, Unit unit, Medium medium) {
-            boolean stated = !Double.isNaN(uncertainty);
-            switch (unit.kind()) {
-                case WAVELENGTH:
-                    return stated ? Wavelength.of(value, uncertainty, unit, medium)
-                            : Wavelength.of(value, unit, medium);
-                case WAVENUMBER:
-                    return stated ? Wavenumber.of(value, uncertainty, unit) : Wavenumber.of(value, unit);
-                case FREQUENCY:
-                    return stated ? Frequency.of(value, uncertainty, unit) : Frequency.of(value, unit);
-                case ENERGY:
-                    return stated ? Energy.of(value, uncertainty, unit) : Energy.of(value, unit);
-                default:
-                    return stated ? Temperature.of(value, uncertainty, unit) : Temperature.of(value, unit);
-            }
+            return Quantity.of(value, uncertainty, unit, medium);
         }
     }
 
