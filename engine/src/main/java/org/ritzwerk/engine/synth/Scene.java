@@ -535,7 +535,7 @@ public final class Scene {
          * (2 J + 1) exp(-E / kT) over the levels whose J is known, energies above the list's
          * lowest level (Boltzmann's law, optically thin, as for the alkali atoms). With an
          * electron density, neutral helium's abundance is weighted by its Saha fraction in the
-         * helium balance ({@link IonisationBalance#helium(HydrogenLikeModel, double, double, int, double)},
+         * helium balance ({@link IonisationBalance#helium(HydrogenLikeModel, double, double, double)},
          * the He II ion made from this nucleus, or the scene's He II model of the same nucleus), as
          * He II's is, with U as He I's partition function there too (the Saha and Boltzmann steps
          * agree; U is cut off at the list's levels, n &lt;= 10 for the built-in He I, which
