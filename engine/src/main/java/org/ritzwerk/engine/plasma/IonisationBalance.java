@@ -76,8 +76,13 @@ public final class IonisationBalance {
      */
     private static final int MODEL_N = 100;
 
-    /** The Planck-Larkin sum runs over n up to this, its rest by a series. */
-    private static final int PLANCK_LARKIN_N = 2000;
+    /**
+     * The Planck-Larkin sum runs over n up to this, its rest by a series: beyond {@link #MODEL_N}
+     * the binding energies scale as n^-2 exactly, so the series holds from there (its first
+     * neglected term, x^5, is below 1e-12 of the sum at any temperature). Summing to 2000 took as
+     * long as a whole small synthetic scene.
+     */
+    private static final int PLANCK_LARKIN_N = MODEL_N;
 
     /**
      * The largest ionisation energy taken, 1e-13 J (about 624 keV): above every atom's and ion's,
@@ -323,12 +328,17 @@ public final class IonisationBalance {
                     : Math.exp(x - a) - (1 + x) * Math.exp(-a);
             sum += 2.0 * n * n * bracket;
         }
-        // The rest, n > N: 2 n^2 (x^2 / 2 + x^3 / 6 + ...) with x = b / n^2, b = I_N N^2 / kT; the
-        // sums of n^-2 and n^-4 beyond N by Euler-Maclaurin, 1/N - 1/(2N^2) + 1/(6N^3) and 1/(3N^3).
+        // The rest, n > N: 2 n^2 (x^2 / 2 + x^3 / 6 + x^4 / 24 + ...) with x = b / n^2, b = I_N N^2 / kT;
+        // the sums of n^-2, n^-4 and n^-6 beyond N by Euler-Maclaurin (common practice):
+        // 1/N - 1/(2N^2) + 1/(6N^3) - 1/(30N^5), 1/(3N^3) - 1/(2N^4) + 1/(3N^5), 1/(5N^5) - 1/(2N^6).
         double big = PLANCK_LARKIN_N;
         double b = binding(model, PLANCK_LARKIN_N) * big * big / kT;
-        double tail = b * b * (1 / big - 1 / (2 * big * big) + 1 / (6 * big * big * big))
-                + b * b * b / 3 / (3 * big * big * big);
+        double n2 = big * big;
+        double n3 = n2 * big;
+        double n5 = n3 * n2;
+        double tail = b * b * (1 / big - 1 / (2 * n2) + 1 / (6 * n3) - 1 / (30 * n5))
+                + b * b * b / 3 * (1 / (3 * n3) - 1 / (2 * n2 * n2) + 1 / (3 * n5))
+                + b * b * b * b / 12 * (1 / (5 * n5) - 1 / (2 * n3 * n3));
         return sum + tail * Math.exp(-a);
     }
 
