@@ -269,10 +269,11 @@ public final class IonisationBalance {
         // the bound levels there.
         int top = HydrogenLikeLines.MAX_N;
         int n = (int) Math.max(1, Math.min(top, Math.floor(Math.sqrt(ground / lowering))));
-        while (n > 1 && binding(model, n) <= lowering) {
+        Bindings bindings = new Bindings(model);
+        while (n > 1 && bindings.at(n) <= lowering) {
             n--;
         }
-        while (n < top && binding(model, n + 1) > lowering) {
+        while (n < top && bindings.at(n + 1) > lowering) {
             n++;
         }
         return n;
@@ -291,10 +292,11 @@ public final class IonisationBalance {
     public static double boundPartition(HydrogenLikeModel model, double temperature, double electronDensity) {
         int last = highestBoundN(model, temperature, electronDensity);
         double kT = PhysicalConstants.K * temperature;
-        double ground = binding(model, 1);
+        Bindings bindings = new Bindings(model);
+        double ground = bindings.at(1);
         double sum = 0;
         for (int n = 1; n <= last; n++) {
-            sum += 2.0 * n * n * Math.exp(-(ground - binding(model, n)) / kT);
+            sum += 2.0 * n * n * Math.exp(-(ground - bindings.at(n)) / kT);
         }
         return sum;
     }
@@ -396,11 +398,32 @@ public final class IonisationBalance {
 
     /** Binding energy of shell n (its n s1/2 level) in J; Bohr-scaled from the model's at n = 100 beyond. */
     private static double binding(HydrogenLikeModel model, int n) {
-        if (n <= MODEL_N) {
-            return -model.energy(n, 0, 1);
+        return new Bindings(model).at(n);
+    }
+
+    /**
+     * One ion's shell binding energies, the model's at n = {@value #MODEL_N} asked once: loops over
+     * hundreds of shells asked the model for it at every n beyond.
+     */
+    private static final class Bindings {
+        private final HydrogenLikeModel model;
+        private double atModelN = Double.NaN;
+
+        Bindings(HydrogenLikeModel model) {
+            this.model = model;
         }
-        double scale = (double) MODEL_N / n;
-        return -model.energy(MODEL_N, 0, 1) * scale * scale;
+
+        /** @return the binding energy of shell n in J, as {@link IonisationBalance#binding} */
+        double at(int n) {
+            if (n <= MODEL_N) {
+                return -model.energy(n, 0, 1);
+            }
+            if (Double.isNaN(atModelN)) {
+                atModelN = -model.energy(MODEL_N, 0, 1);
+            }
+            double scale = (double) MODEL_N / n;
+            return atModelN * scale * scale;
+        }
     }
 
     private static void requireZ(HydrogenLikeModel model, int z) {
