@@ -3,11 +3,8 @@ package org.ritzwerk.engine.synth;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.BitSet;
-import java.util.Collections;
-import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Objects;
-import java.util.Set;
 import java.util.function.DoubleConsumer;
 import java.util.function.DoubleUnaryOperator;
 import java.util.function.Function;
@@ -501,7 +498,7 @@ public final class Scene {
             }
             positive(label + " emitter mass", emitterMassKg);
             String[] labels = lineLabels.clone();
-            lists.add(new ListEmitter(label, vacuumNm.clone(), photons.clone(), emitterMassKg, i -> labels[i]));
+            lists.add(new ListEmitter(label, vacuumNm.clone(), photons.clone(), emitterMassKg, i -> labels[i], true));
             return this;
         }
 
@@ -957,9 +954,8 @@ public final class Scene {
             for (HydrogenLikeEmitter ion : ions) {
                 addIon(ion, out, doppler, ionWindowNm(), stark, notes);
             }
-            Set<ListEmitter> given = Collections.newSetFromMap(new IdentityHashMap<>());
-            for (ListEmitter list : resolvedLists(notes, given)) {
-                boolean fromIntensity = given.contains(list);
+            for (ListEmitter list : resolvedLists(notes)) {
+                boolean fromIntensity = list.givenIntensities();
                 out.reserve(list.vacuumNm.length);
                 for (int i = 0; i < list.vacuumNm.length; i++) {
                     double vacuumShifted = list.vacuumNm[i] * doppler;
@@ -987,27 +983,22 @@ public final class Scene {
         }
 
         /**
-         * The line lists as fixed photon rates, in the order they were added; those whose rates are
-         * given intensities (not populations the scene computes) are also put in {@code given}.
+         * The line lists as fixed photon rates, in the order they were added; each says whether its
+         * rates are given intensities (not populations the scene computes).
          */
-        private List<ListEmitter> resolvedLists(List<String> notes, Set<ListEmitter> given) {
+        private List<ListEmitter> resolvedLists(List<String> notes) {
             List<ListEmitter> out = new ArrayList<>();
             for (Object entry : lists) {
                 if (entry instanceof ListEmitter fixed) {
                     out.add(fixed);
-                    given.add(fixed);
                 } else if (entry instanceof AlkaliEmitter alkali) {
                     out.add(alkaliLines(alkali));
                 } else if (entry instanceof LevelEmitter levels) {
                     out.add(levelLines(levels, notes));
                 } else if (entry instanceof RelativeColumns columns) {
-                    List<ListEmitter> drawn = relativeColumnLines(columns);
-                    out.addAll(drawn);
-                    given.addAll(drawn);
+                    out.addAll(relativeColumnLines(columns));
                 } else {
-                    List<ListEmitter> drawn = relativeSetLines((RelativeSet) entry);
-                    out.addAll(drawn);
-                    given.addAll(drawn);
+                    out.addAll(relativeSetLines((RelativeSet) entry));
                 }
             }
             return out;
@@ -1104,7 +1095,7 @@ public final class Scene {
             }
             String[] kept = Arrays.copyOf(labels, n);
             return new ListEmitter(atom.species().notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n),
-                    e.massKg(), i -> kept[i]);
+                    e.massKg(), i -> kept[i], false);
         }
 
         /**
@@ -1207,7 +1198,7 @@ public final class Scene {
             }
             String[] kept = Arrays.copyOf(labels, n);
             return new ListEmitter(levels.species().notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n),
-                    e.massKg(), i -> kept[i]);
+                    e.massKg(), i -> kept[i], false);
         }
 
         /** The lowest energy of a level list, cm^-1. */
@@ -1400,7 +1391,7 @@ public final class Scene {
                 Nucleus nucleus = Objects.requireNonNull(r.nuclei().apply(species), "nucleus of " + species.notation());
                 double mass = nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
                 out.add(new ListEmitter(species.notation(), nm, photons, mass,
-                        i -> prefix + columns.position(row[i]) + suffix));
+                        i -> prefix + columns.position(row[i]) + suffix, true));
             }
             return out;
         }
@@ -1446,7 +1437,7 @@ public final class Scene {
                 double mass = nucleus.massKg() + (species.z() - species.charge()) * PhysicalConstants.ELECTRON_MASS.value();
                 String[] kept = Arrays.copyOf(labels, n);
                 out.add(new ListEmitter(species.notation(), Arrays.copyOf(nm, n), Arrays.copyOf(photons, n), mass,
-                        i -> kept[i]));
+                        i -> kept[i], true));
             }
             return out;
         }
@@ -1608,7 +1599,9 @@ public final class Scene {
         String label(int i);
     }
 
-    private record ListEmitter(String label, double[] vacuumNm, double[] photons, double massKg, LabelSource labels) {
+    /** Fixed photon rates; {@code givenIntensities}: they come from given intensities, not computed populations. */
+    private record ListEmitter(String label, double[] vacuumNm, double[] photons, double massKg, LabelSource labels,
+            boolean givenIntensities) {
     }
 
     private record AlkaliEmitter(AlkaliAtom atom, double abundance, double massKg) {
