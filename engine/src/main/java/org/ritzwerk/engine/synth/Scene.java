@@ -1292,6 +1292,25 @@ public final class Scene {
         }
 
         /**
+         * The photon rate a list's strongest line gets, {@link #strongestIonLine(double, double)} for
+         * the list's span of wavelengths, or NaN without ions (or without their light): the list
+         * then keeps its own intensities.
+         */
+        private double listReference(double loNm, double hiNm) {
+            double ionScale = ions.isEmpty() ? 0 : strongestIonLine(loNm, hiNm);
+            return ionScale > 0 ? ionScale : Double.NaN;
+        }
+
+        /**
+         * A list line's photon rate: its intensity, or with a reference its share of the list's
+         * strongest times the reference (the ratio taken first, so a faint reference, Lyman-alpha at
+         * a few hundred kelvin, does not underflow beside large intensities).
+         */
+        private static double photons(double intensity, double strongest, double reference) {
+            return Double.isNaN(reference) ? intensity : intensity / strongest * reference;
+        }
+
+        /**
          * The reference photon rate for a line list with relative intensities whose lines (with an
          * intensity) span the vacuum wavelengths loNm to hiNm: the strongest one-electron line at
          * rest in that span (the list's own, not the grid's), upper n up to REFERENCE_N, 10 (and the
@@ -1301,12 +1320,13 @@ public final class Scene {
          * an ion line is the same in every window. 0 without ions.
          */
         private double strongestIonLine(double loNm, double hiNm) {
-            double inSpan = strongestIonLine(PhysicalConstants.C / (hiNm * 1e-9), PhysicalConstants.C / (loNm * 1e-9),
-                    true);
-            return inSpan > 0 ? inSpan : strongestIonLine(0, Double.MAX_VALUE, false);
+            double inSpan = strongestIonLineInHertz(PhysicalConstants.C / (hiNm * 1e-9),
+                    PhysicalConstants.C / (loNm * 1e-9));
+            return inSpan > 0 ? inSpan : strongestIonLineInHertz(0, Double.MAX_VALUE);
         }
 
-        private double strongestIonLine(double loHertz, double hiHertz, boolean span) {
+        /** The strongest one-electron line between two frequencies (see {@link #strongestIonLine}). */
+        private double strongestIonLineInHertz(double loHertz, double hiHertz) {
             double strongest = 0;
             double kT = PhysicalConstants.K * temperature;
             List<String> ignored = new ArrayList<>();   // the same notes come again from the ions' own lines
@@ -1357,11 +1377,7 @@ public final class Scene {
                     hi = Math.max(hi, vacuum[i] * 1e9);
                 }
             }
-            double ionScale = ions.isEmpty() ? 0 : strongestIonLine(lo, hi);
-            // with ions, the list's strongest line gets their reference rate (the ratio taken first,
-            // so a faint reference, Lyman-alpha at a few hundred kelvin, does not underflow beside
-            // large intensities); without, the list's own intensities
-            double reference = ionScale > 0 ? ionScale : Double.NaN;
+            double reference = listReference(lo, hi);
             String suffix = " " + columns.unit().symbol() + (columns.medium() == null ? "" : " "
                     + columns.medium().label());
             int[] count = new int[columns.coveredSpecies().size()];
@@ -1381,8 +1397,7 @@ public final class Scene {
                 for (int i = 0; i < size && k < n; i++) {
                     if (columns.speciesNumber(i) == number && !Double.isNaN(columns.intensity(i))) {
                         nm[k] = vacuum[i] * 1e9;
-                        photons[k] = Double.isNaN(reference) ? columns.intensity(i)
-                                : columns.intensity(i) / strongest * reference;
+                        photons[k] = photons(columns.intensity(i), strongest, reference);
                         row[k] = i;
                         k++;
                     }
@@ -1410,11 +1425,7 @@ public final class Scene {
                     hi = Math.max(hi, set.vacuumWavelengthNm(i));
                 }
             }
-            double ionScale = ions.isEmpty() ? 0 : strongestIonLine(lo, hi);
-            // with ions, the list's strongest line gets their reference rate (the ratio taken first,
-            // so a faint reference, Lyman-alpha at a few hundred kelvin, does not underflow beside
-            // large intensities); without, the list's own intensities
-            double reference = ionScale > 0 ? ionScale : Double.NaN;
+            double reference = listReference(lo, hi);
             List<ListEmitter> out = new ArrayList<>();
             for (Species species : set.speciesList()) {
                 double[] nm = new double[set.size()];
@@ -1424,8 +1435,7 @@ public final class Scene {
                 for (int i = 0; i < set.size(); i++) {
                     if (set.species(i).equals(species) && set.relativeIntensity(i).isPresent()) {
                         nm[n] = set.vacuumWavelengthNm(i);
-                        photons[n] = Double.isNaN(reference) ? set.relativeIntensity(i).getAsDouble()
-                                : set.relativeIntensity(i).getAsDouble() / strongest * reference;
+                        photons[n] = photons(set.relativeIntensity(i).getAsDouble(), strongest, reference);
                         labels[n] = species.notation() + " " + set.name(i);
                         n++;
                     }
