@@ -324,11 +324,7 @@ public final class IonisationBalance {
         double a = ground / kT;
         double sum = 0;
         for (int n = 1; n <= PLANCK_LARKIN_N; n++) {
-            double x = binding(model, n) / kT;
-            // exp(-a) (exp(x) - 1 - x), without overflow for a cold gas and without cancellation for small x.
-            double bracket = x < 1e-3 ? x * x * (0.5 + x * (1.0 / 6 + x / 24)) * Math.exp(-a)
-                    : Math.exp(x - a) - (1 + x) * Math.exp(-a);
-            sum += 2.0 * n * n * bracket;
+            sum += 2.0 * n * n * planckLarkinTerm(binding(model, n) / kT, a);
         }
         // The rest, n > N: 2 n^2 (x^2 / 2 + x^3 / 6 + x^4 / 24 + ...) with x = b / n^2, b = I_N N^2 / kT;
         // the sums of n^-2, n^-4 and n^-6 beyond N by Euler-Maclaurin (common practice):
@@ -342,6 +338,19 @@ public final class IonisationBalance {
                 + b * b * b / 3 * (1 / (3 * n3) - 1 / (2 * n2 * n2) + 1 / (3 * n5))
                 + b * b * b * b / 12 * (1 / (5 * n5) - 1 / (2 * n3 * n3));
         return sum + tail * Math.exp(-a);
+    }
+
+    /**
+     * One level's Planck-Larkin weight relative to the ground, exp(-a) (exp(x) - 1 - x), without
+     * overflow for a cold gas and without cancellation for small x.
+     *
+     * @param x the level's binding energy over kT
+     * @param a the ground level's binding energy over kT
+     * @return the weight, to be multiplied by the level's statistical weight
+     */
+    public static double planckLarkinTerm(double x, double a) {
+        return x < 1e-3 ? x * x * (0.5 + x * (1.0 / 6 + x / 24)) * Math.exp(-a)
+                : Math.exp(x - a) - (1 + x) * Math.exp(-a);
     }
 
     /**

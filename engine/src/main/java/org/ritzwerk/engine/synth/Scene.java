@@ -1140,10 +1140,7 @@ public final class Scene {
                             }
                         } else {
                             anyBound = true;
-                            double x = binding * hcPerCmOverKt;
-                            double bracket = x < 1e-3 ? x * x * (0.5 + x * (1.0 / 6 + x / 24)) * Math.exp(-a)
-                                    : Math.exp(x - a) - (1 + x) * Math.exp(-a);
-                            partition += (twoJ + 1) * bracket;
+                            partition += (twoJ + 1) * IonisationBalance.planckLarkinTerm(binding * hcPerCmOverKt, a);
                         }
                     }
                 }
