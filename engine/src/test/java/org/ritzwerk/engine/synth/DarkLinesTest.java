@@ -122,6 +122,29 @@ class DarkLinesTest {
         assertTrue(new SceneException(SceneException.DARK_CONTINUUM, "x").darkLines().isEmpty());
     }
 
+    /** The README's example (synth section), compiled and run. */
+    @Test
+    void theReadmeExample() {
+        Scene scene = Scene.builder(PixelGrid.linear(100, 130, 600)).hydrogenLike(Species.parse("H I"), H, 1)
+                .lineList("Xx I", new double[] {110, 120}, new double[] {1, 0}, MASS).nMax(3).temperature(100).build();
+        StringBuilder printed = new StringBuilder();
+        // --- README: lines without light ---
+        DarkLines before = scene.darkLines();             // rates already 0: known before rendering
+        SyntheticSpectrum spectrum = scene.render(1);
+        DarkLines dark = spectrum.darkLines();            // and those whose counts vanished in the scaling
+        for (DarkLines.Line line : dark.lines()) {
+            printed.append(line.label() + " at " + line.positionNm() + " nm: " + line.cause() + "\n");
+        }
+        int faint = dark.count(DarkLines.Cause.POPULATION_UNDERFLOW);   // of dark.onGrid() lines on the grid
+        // --- end ---
+        assertEquals(before, dark);
+        assertEquals(4, dark.onGrid());
+        assertEquals(2, faint);
+        assertEquals(1, dark.count(DarkLines.Cause.ZERO_INTENSITY));
+        assertTrue(printed.toString().contains("Xx I at " + scene.lines().position(dark.withCause(
+                DarkLines.Cause.ZERO_INTENSITY).get(0).index()) + " nm: ZERO_INTENSITY\n"), printed.toString());
+    }
+
     @Test
     void badValuesAreRefused() {
         assertThrows(IllegalArgumentException.class, () -> new DarkLines(0, List.of(new DarkLines.Line(0, "x", 1,
