@@ -16,6 +16,7 @@ import org.ritzwerk.atom.Elements;
 import org.ritzwerk.data.LineList;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.synth.Continuum;
+import org.ritzwerk.engine.synth.DarkLines;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.LineColumns;
 import org.ritzwerk.engine.synth.PixelGrid;
@@ -316,9 +317,10 @@ final class SynthCommand implements Callable<Integer> {
             if (e.code().equals(SceneException.NO_LIGHT)) {
                 String range = dispersion == null ? from + " and " + to : fmt(spectrumEdge(0)) + " nm and "
                         + fmt(spectrumEdge(1)) + " nm";
-                List<String> unlit = unlit(scene.lines(), grid, null);
+                DarkLines dark = e.darkLines().orElseGet(scene::darkLines);
+                List<String> unlit = unlit(dark);
                 if (!unlit.isEmpty()) {
-                    throw new OptionException(inside(scene.lines(), grid) + " line(s) of " + emitters() + " fall"
+                    throw new OptionException(dark.onGrid() + " line(s) of " + emitters() + " fall"
                             + " between " + range + ", but none carries any light: " + String.join("; ", unlit), e);
                 }
                 throw new OptionException("no line of " + emitters() + " falls between " + range
@@ -334,7 +336,7 @@ final class SynthCommand implements Callable<Integer> {
             spec.commandLine().getErr().println("note: the noise is drawn from the default --seed " + seed
                     + "; spectra made without --seed share their noise, so give each its own seed");
         }
-        for (String unlit : unlit(scene.lines(), grid, spectrum)) {
+        for (String unlit : unlit(spectrum.darkLines())) {
             spec.commandLine().getErr().println("note: " + unlit);
         }
         spec.commandLine().getErr().flush();
@@ -511,42 +513,14 @@ final class SynthCommand implements Callable<Integer> {
         };
     }
 
-    /** @return the number of lines between the grid's ends */
-    private static int inside(Scene.Lines lines, PixelGrid grid) {
-        int inside = 0;
-        for (int i = 0; i < lines.size(); i++) {
-            inside += lines.position(i) >= grid.lowest() && lines.position(i) <= grid.highest() ? 1 : 0;
-        }
-        return inside;
-    }
-
     /**
-     * The lines between the grid's ends that carry no light, one sentence per cause, naming how
-     * many and the first three: a --lines entry of intensity 0; a --lines entry too faint beside
-     * the brightest line for its counts to be held by a double; a line whose population the
-     * scene computed (Boltzmann, Saha) too small to be held.
-     *
-     * @param spectrum the rendered spectrum (its line counts say which lines came out dark), or
-     *                 null before rendering (then the photon rates say it)
+     * The lines between the grid's ends that carry no light, as the library classifies them
+     * ({@link DarkLines}), one sentence per cause in the options' words, naming how many and the
+     * first three: a --lines entry of intensity 0; a --lines entry too faint beside the brightest
+     * line for its counts to be held by a double; a line whose population the scene computed
+     * (Boltzmann, Saha) too small to be held.
      */
-    private List<String> unlit(Scene.Lines lines, PixelGrid grid, SyntheticSpectrum spectrum) {
-        int inside = inside(lines, grid);
-        List<List<String>> kinds = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
-        int[] count = new int[3];
-        for (int i = 0; i < lines.size(); i++) {
-            if (!(lines.position(i) >= grid.lowest() && lines.position(i) <= grid.highest())) {
-                continue;
-            }
-            boolean dark = spectrum == null ? lines.photons(i) == 0 : spectrum.lineCounts(i) == 0;
-            if (!dark) {
-                continue;
-            }
-            int kind = !lines.intensityGiven(i) ? 2 : lines.photons(i) == 0 ? 0 : 1;
-            count[kind]++;
-            if (kinds.get(kind).size() < 3) {
-                kinds.get(kind).add(lines.label(i));
-            }
-        }
+    private List<String> unlit(DarkLines dark) {
         String[] why = {
             "their --lines intensity is 0" + (ions.species.isEmpty() ? "" : " (or so small beside the list's"
                     + " strongest line that it vanishes when the list is scaled to the strongest one-electron line)"),
@@ -557,13 +531,21 @@ final class SynthCommand implements Callable<Integer> {
                     + " levels, exp(-E / kT), are below the smallest number a double holds (about 1e-308)"
                     + (electronDensity == null ? "" : ", or the ionisation balance at --electron-density leaves no"
                     + " emitters") + "; raise --temperature"};
+        DarkLines.Cause[] causes = {DarkLines.Cause.ZERO_INTENSITY, DarkLines.Cause.INTENSITY_UNDERFLOW,
+            DarkLines.Cause.POPULATION_UNDERFLOW};
         List<String> out = new ArrayList<>();
-        for (int kind = 0; kind < 3; kind++) {
-            if (count[kind] > 0) {
-                out.add(count[kind] + " of the " + inside + " lines inside the range "
-                        + (count[kind] == 1 ? "carries" : "carry") + " no light (" + String.join(", ", kinds.get(kind))
-                        + (count[kind] > kinds.get(kind).size() ? ", ..." : "") + "): " + why[kind]);
+        for (int kind = 0; kind < causes.length; kind++) {
+            List<DarkLines.Line> lines = dark.withCause(causes[kind]);
+            if (lines.isEmpty()) {
+                continue;
             }
+            List<String> first = new ArrayList<>();
+            for (DarkLines.Line line : lines.subList(0, Math.min(3, lines.size()))) {
+                first.add(line.label());
+            }
+            out.add(lines.size() + " of the " + dark.onGrid() + " lines inside the range "
+                    + (lines.size() == 1 ? "carries" : "carry") + " no light (" + String.join(", ", first)
+                    + (lines.size() > first.size() ? ", ..." : "") + "): " + why[kind]);
         }
         return out;
     }

@@ -233,6 +233,27 @@ public final class Schemas {
      * level list, lines of the lists used once or left out, a saturation level taken from the
      * exposure, an end where the solution rests on one pairing; empty when there is nothing to
      * say).
+     *
+     * <p><b>Nulls</b>, as the schema declares them (arrays never hold a null element):
+     * <ul>
+     * <li>never null: {@code id}, {@code pixels} (the exposure's length), {@code notes} (empty,
+     * not null, when there is nothing to say; a refused exposure keeps the lamp's notes);</li>
+     * <li>null exactly when the exposure was refused: {@code medium}, {@code degree},
+     * {@code centre_pixel}, {@code half_range}, {@code coefficients}, {@code lowest_pixel},
+     * {@code highest_pixel}, {@code lines_used}, {@code lines_rejected}, {@code peaks_found},
+     * {@code strong_peaks}, {@code strong_matched}, {@code saturated_peaks}, {@code lines},
+     * {@code description};</li>
+     * <li>null when refused, and in an accepted row when the figure is not a finite number
+     * ({@code rms_nm} and {@code rms_pixels} without a used pair, {@code reduced_chi_square}
+     * without a degree of freedom; {@code matched_fraction} and {@code coverage} are written null
+     * if not finite, which an accepted calibration does not give);</li>
+     * <li>null when refused, and in an accepted row when the solution has no covariance (an
+     * element of it undefined): {@code covariance};</li>
+     * <li>null when refused, and in an accepted row when too few pairs remain for the degree to
+     * predict an outermost line, or the fit has no covariance: {@code end_check_low_pixels},
+     * {@code end_check_high_pixels};</li>
+     * <li>null exactly when the exposure was accepted: {@code failure_code}, {@code failure}.</li>
+     * </ul>
      */
     public static final StructType CALIBRATIONS = struct(
             required("id", DataTypes.StringType),
@@ -262,7 +283,7 @@ public final class Schemas {
             optional("end_check_high_pixels", DataTypes.DoubleType),
             optional("failure_code", DataTypes.StringType),
             optional("failure", DataTypes.StringType),
-            optional("notes", STRINGS));
+            required("notes", STRINGS));
 
     /** The columns of {@link #SCIENCE}: required ones not nullable, optional ones nullable. */
     static final StructType SCIENCE_COLUMNS = struct(

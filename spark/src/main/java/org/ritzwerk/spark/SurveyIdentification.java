@@ -17,6 +17,7 @@ import org.apache.spark.sql.Column;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.api.java.UDF2;
+import org.apache.spark.sql.api.java.UDF6;
 import org.apache.spark.sql.catalyst.InternalRow;
 import org.apache.spark.sql.catalyst.expressions.UnsafeRow;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeArrayWriter;
@@ -140,19 +141,70 @@ public final class SurveyIdentification {
      *         (intensities, widths) are null unless every one of its peaks gives one. The grouping
      *         is a shuffle, so the table has {@code spark.sql.shuffle.partitions} partitions:
      *         repartition it for a large table. Reading its positions fails the job with a
-     *         {@link SparkRowException} naming the id and the peak when two rows of one id have the
-     *         same peak (the order would be undefined), a peak is null, or the peaks of a spectrum
+     *         {@link SparkRowException} ({@link SparkRowException#BAD_FIELD}) naming the
+     *         spectrum's id, the column and the value, as {@link #identify} names the fields of a
+     *         peak list: a row whose id or peak is null; a position that is null, not finite or
+     *         not above 0; a sigma, intensity or width that is not finite or below 0 (each checked
+     *         where it is given, so a spectrum never loses a column to a bad value); two rows of
+     *         one id with the same peak (the order would be undefined); peaks of a spectrum that
      *         do not run 0, 1, 2, ... (the identified peaks' numbers would not be the input's).
+     *         Two peaks at the same position are allowed, as in a peak list.
+     * @throws SparkRowException ({@link SparkRowException#BAD_SCHEMA}) when a column is missing or
+     *                           has another type
      */
     public static Dataset<Row> peakLists(Dataset<Row> peakRows) {
         Fields.of(peakRows.schema(), Schemas.PEAK_ROWS_COLUMNS, "peak-row");
+        // Each row is checked as it enters the grouping, as part of the position the arrays are made
+        // of, so that no use of the peak lists escapes it.
+        Column checked = udf(new PeakRowCheck(), DataTypes.BooleanType).apply(col("id"), col("peak"), col("position"),
+                col("sigma"), col("intensity"), col("width"));
         Dataset<Row> grouped = peakRows.groupBy(col("id")).agg(sort_array(collect_list(struct(col("peak"),
-                col("position"), col("sigma"), col("intensity"), col("width")))).as("p"));
+                when(checked, col("position")).as("position"), col("sigma"), col("intensity"), col("width"))))
+                .as("p"));
         // The check is part of the positions column, so that no use of the peak lists escapes it.
         Column unique = udf(new UniquePeaks(), DataTypes.BooleanType).apply(col("id"), col("p").getField("peak"));
         return grouped.select(col("id"), when(unique, col("p").getField("position")).as("positions"),
                 whole(col("p"), "sigma", "sigmas"), whole(col("p"), "intensity", "intensities"),
                 whole(col("p"), "width", "widths")).to(Schemas.PEAK_LISTS);
+    }
+
+    /**
+     * The check of one peak row, as {@link #identify} checks a peak list's arrays: true, or a
+     * {@link SparkRowException} naming the spectrum's id, the column, the peak and the value.
+     */
+    static final class PeakRowCheck implements UDF6<String, Integer, Double, Double, Double, Double, Boolean> {
+        private static final long serialVersionUID = 1L;
+
+        @Override
+        public Boolean call(String id, Integer peak, Double position, Double sigma, Double intensity, Double width) {
+            if (id == null) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, null, "id", "a peak row's id is null (peak "
+                        + peak + ", position " + position + "); each peak row needs the id of its spectrum");
+            }
+            if (peak == null) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "is null in one of this"
+                        + " spectrum's peak rows (position " + position + "); each peak row needs its index in the"
+                        + " spectrum");
+            }
+            if (position == null) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "position", "peak " + peak + " has"
+                        + " none; each peak needs a position");
+            }
+            check(id, peak, "position", position, true);
+            check(id, peak, "sigma", sigma, false);
+            check(id, peak, "intensity", intensity, false);
+            check(id, peak, "width", width, false);
+            return Boolean.TRUE;
+        }
+
+        /** Refuses a given value that is not finite, or below 0 (or at 0 when {@code above}). */
+        private static void check(String id, int peak, String field, Double value, boolean above) {
+            if (value != null && !(Double.isFinite(value) && (above ? value > 0 : value >= 0))) {
+                throw new SparkRowException(SparkRowException.BAD_FIELD, id, field, "peak " + peak + " has " + value
+                        + "; " + (field.equals("intensity") ? "an " : "a ") + field + " must be finite and "
+                        + (above ? "above 0" : "at least 0"));
+            }
+        }
     }
 
     /**

@@ -164,6 +164,68 @@ class SurveyCalibrationTest {
     }
 
     /**
+     * What the job writes keeps to the nulls {@link Schemas#CALIBRATIONS} declares, for a refused
+     * exposure (flat counts, no peak) and an accepted one: a column declared not nullable is never
+     * null, no array holds a null element, a refused row has only id, pixels, failure_code, failure
+     * and notes, an accepted one has every column but the failure's. The columns never null in
+     * either are exactly those declared not nullable (notes was declared nullable, though the job
+     * never leaves it null).
+     */
+    @Test
+    void refusedAndAcceptedRowsKeepToTheDeclaredNulls() {
+        SparkSession spark = LocalSpark.session();
+        DataContext data = DataContext.builtIn();
+        double[] flat = new double[Fixtures.PIXELS];
+        java.util.Arrays.fill(flat, 100);
+        List<Row> rows = List.of(RowFactory.create("lamp", Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")),
+                1.0, 9L), null), RowFactory.create("dark", flat, null));
+        Dataset<Row> calibrations = SurveyCalibration.of(CalibrationParameters.of(List.of("Ne I"), List.of()))
+                .calibrate(spark.createDataFrame(rows, Schemas.EXPOSURES));
+        assertEquals(Schemas.CALIBRATIONS, calibrations.schema());
+        org.apache.spark.sql.types.StructField[] fields = Schemas.CALIBRATIONS.fields();
+        Map<String, Row> byId = new HashMap<>();
+        java.util.Set<String> neverNull = new java.util.TreeSet<>();
+        for (org.apache.spark.sql.types.StructField field : fields) {
+            neverNull.add(field.name());
+        }
+        for (Row row : calibrations.collectAsList()) {
+            byId.put(row.getString(0), row);
+            for (int i = 0; i < fields.length; i++) {
+                String where = row.getString(0) + " " + fields[i].name();
+                if (row.isNullAt(i)) {
+                    assertTrue(fields[i].nullable(), where + " is null but declared not nullable");
+                    neverNull.remove(fields[i].name());
+                } else if (fields[i].dataType() instanceof org.apache.spark.sql.types.ArrayType array
+                        && !array.containsNull()) {
+                    for (Object element : row.getList(i)) {
+                        assertTrue(element != null, where + " holds a null element");
+                    }
+                }
+            }
+        }
+        java.util.Set<String> declared = new java.util.TreeSet<>();
+        for (org.apache.spark.sql.types.StructField field : fields) {
+            if (!field.nullable()) {
+                declared.add(field.name());
+            }
+        }
+        assertEquals(declared, neverNull);
+        assertEquals(java.util.Set.of("id", "pixels", "notes"), declared);
+
+        Row refused = byId.get("dark");
+        java.util.Set<String> kept = java.util.Set.of("id", "pixels", "failure_code", "failure", "notes");
+        for (int i = 0; i < fields.length; i++) {
+            assertEquals(!kept.contains(fields[i].name()), refused.isNullAt(i), "refused: " + fields[i].name());
+        }
+        assertEquals(Fixtures.PIXELS, refused.getInt(1));
+        Row accepted = byId.get("lamp");
+        for (int i = 0; i < fields.length; i++) {
+            boolean failure = fields[i].name().startsWith("failure");
+            assertEquals(failure, accepted.isNullAt(i), "accepted: " + fields[i].name());
+        }
+    }
+
+    /**
      * The command's --required-precision and --no-second-order reach the operation: a solution
      * less precise than required is refused in its row with the library's code and message, and
      * one within it is the library's, bit for bit.

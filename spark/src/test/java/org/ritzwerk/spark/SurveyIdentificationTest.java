@@ -435,6 +435,60 @@ class SurveyIdentificationTest {
                 message);
     }
 
+    /**
+     * Grouping peak rows checks each row as identify checks a peak list (positions finite and
+     * above 0; sigmas, intensities and widths finite and at least 0 where given) and names the
+     * spectrum, the column, the peak and the value; until 2026-12-05 such rows were grouped
+     * silently, and a negative sigma, intensity or width reached identify only as an element of
+     * an array.
+     */
+    @Test
+    void aMalformedPeakRowFailsTheGroupingNamingItsSpectrumColumnAndValue() {
+        SparkSession spark = LocalSpark.session();
+        Object[][] cases = {
+            {"e", 1, Double.NaN, 1e-3, null, null, "row 'e', field 'position': peak 1 has NaN; a position must be"
+                    + " finite and above 0"},
+            {"e", 1, 0.0, 1e-3, null, null, "row 'e', field 'position': peak 1 has 0.0; a position must be finite"
+                    + " and above 0"},
+            {"e", 1, null, 1e-3, null, null, "row 'e', field 'position': peak 1 has none; each peak needs a"
+                    + " position"},
+            {"e", 1, 487.1, Double.POSITIVE_INFINITY, null, null, "row 'e', field 'sigma': peak 1 has Infinity; a"
+                    + " sigma must be finite and at least 0"},
+            {"e", 1, 487.1, -1e-3, null, null, "row 'e', field 'sigma': peak 1 has -0.001; a sigma must be finite"
+                    + " and at least 0"},
+            {"e", 1, 487.1, 1e-3, -2.0, null, "row 'e', field 'intensity': peak 1 has -2.0; an intensity must be"
+                    + " finite and at least 0"},
+            {"e", 1, 487.1, 1e-3, null, Double.NaN, "row 'e', field 'width': peak 1 has NaN; a width must be finite"
+                    + " and at least 0"},
+            {null, 1, 487.1, 1e-3, null, null, "field 'id': a peak row's id is null (peak 1, position 487.1); each"
+                    + " peak row needs the id of its spectrum"}};
+        // Each row's check, as Spark calls it for every peak row entering the grouping.
+        for (Object[] bad : cases) {
+            SparkRowException e = assertThrows(SparkRowException.class, () -> new SurveyIdentification.PeakRowCheck()
+                    .call((String) bad[0], (Integer) bad[1], (Double) bad[2], (Double) bad[3], (Double) bad[4],
+                            (Double) bad[5]));
+            assertEquals(bad[6], e.getMessage());
+            assertEquals(SparkRowException.BAD_FIELD, e.code());
+            assertEquals(bad[0], e.rowId());
+        }
+        // And in a job: the first and last cases fail the grouping with the same message (one job each).
+        for (Object[] bad : new Object[][] {cases[0], cases[cases.length - 1]}) {
+            List<Row> rows = List.of(RowFactory.create("e", 0, 486.1, 1e-3, 5.0, 0.01),
+                    RowFactory.create(bad[0], bad[1], bad[2], bad[3], bad[4], bad[5]),
+                    RowFactory.create("f", 0, 486.1, 1e-3, 5.0, 0.01));
+            String message = failure(() -> SurveyIdentification.peakLists(spark.createDataFrame(rows,
+                    NULLABLE_PEAK_ROWS)).collectAsList());
+            assertEquals(bad[6], message);
+        }
+        // A sigma, intensity and width of 0 are allowed (as in a peak list), and so are two peaks at one position.
+        List<Row> edge = List.of(RowFactory.create("g", 0, 486.1, 0.0, 0.0, 0.0),
+                RowFactory.create("g", 1, 486.1, 0.0, 0.0, 0.0));
+        Row grouped = SurveyIdentification.peakLists(spark.createDataFrame(edge, Schemas.PEAK_ROWS)).collectAsList()
+                .get(0);
+        assertEquals(List.of(486.1, 486.1), grouped.getList(1));
+        assertEquals(List.of(0.0, 0.0), grouped.getList(2));
+    }
+
     /** The per-peak schema with a nullable peak column, as a table read from files may have it. */
     private static final StructType NULLABLE_PEAK_ROWS = new StructType(Arrays.stream(Schemas.PEAK_ROWS.fields())
             .map(f -> new StructField(f.name(), f.dataType(), true, f.metadata())).toArray(StructField[]::new));

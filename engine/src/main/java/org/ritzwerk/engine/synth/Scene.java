@@ -143,6 +143,20 @@ public final class Scene {
         return lines;
     }
 
+    /**
+     * The lines on the grid that will carry no light whatever the scaling, told before rendering:
+     * those whose photon rate is already 0, each with its cause ({@link DarkLines}: an intensity
+     * of 0 in a line list, or one that became 0 in the list's scaling; a computed population that
+     * underflowed). Rendering may darken more (counts that underflow once scaled to the peak
+     * counts): {@link SyntheticSpectrum#darkLines()} has those too, and a refused render's
+     * {@link SceneException#darkLines()} has every line on the grid.
+     *
+     * @return the lines on the grid (centre between the grid's ends) and the dark ones among them
+     */
+    public DarkLines darkLines() {
+        return DarkLines.find(lines, grid, i -> lines.photons[i] == 0);
+    }
+
     /** @return things the caller should know about the scene (approximations that applied) */
     public List<String> notes() {
         return notes;
@@ -152,7 +166,8 @@ public final class Scene {
      * @param threads threads for the line rendering, 1 to 1024; the result does not depend on it
      * @return the rendered spectrum
      * @throws SceneException ({@link SceneException#NO_LIGHT}) when no line puts light into the grid
-     *         and there is no continuum
+     *         and there is no continuum; its {@link SceneException#darkLines()} says which lines
+     *         lie on the grid and why each is dark
      * @throws IllegalArgumentException when a continuum density is unusable
      */
     public SyntheticSpectrum render(int threads) {
@@ -186,15 +201,11 @@ public final class Scene {
             brightest = Math.max(brightest, v);
         }
         if (brightest == 0 && continuum == null) {
-            int inside = 0;
-            int given = 0;
-            for (int i = 0; i < lines.size(); i++) {
-                if (lines.position(i) >= grid.lowest() && lines.position(i) <= grid.highest()) {
-                    inside++;
-                    given += lines.intensityGiven(i) ? 1 : 0;
-                }
-            }
+            // Nothing on the grid gives light: every line there is dark, each for its own cause.
+            DarkLines dark = DarkLines.find(lines, grid, i -> true);
+            int inside = dark.onGrid();
             if (inside > 0) {
+                int given = inside - dark.count(DarkLines.Cause.POPULATION_UNDERFLOW);
                 String populations = "at the scene's temperature the Boltzmann populations of their upper levels,"
                         + " exp(-E / kT), are below the smallest number a double holds (about 1e-308), or the"
                         + " ionisation balance leaves no emitters; raise the temperature";
@@ -202,10 +213,10 @@ public final class Scene {
                 throw new SceneException(SceneException.NO_LIGHT, inside + (inside == 1 ? " line falls" : " lines fall")
                         + " on the grid from " + grid.lowest() + " to " + grid.highest() + " nm, but none"
                         + " carries any light: " + (given == 0 ? populations : given == inside ? intensities
-                        : given + " of them because " + intensities + ", the others because " + populations));
+                        : given + " of them because " + intensities + ", the others because " + populations), dark);
             }
             throw new SceneException(SceneException.NO_LIGHT, "no line falls on the grid from " + grid.lowest()
-                    + " to " + grid.highest() + " nm; widen the range, raise nMax or add emitters");
+                    + " to " + grid.highest() + " nm; widen the range, raise nMax or add emitters", dark);
         }
         double scale = brightest == 0 ? 0 : peakCounts / brightest;
         if (!Double.isFinite(scale)) {

@@ -107,4 +107,18 @@ public final class SyntheticSpectrum {
     public double lineCountsInPixels(int i) {
         return inPixels[i];
     }
+
+    /**
+     * The lines whose centre lies on the grid but which carry no light in this spectrum (expected
+     * counts {@link #lineCounts} of 0), each with its index, label, position and cause
+     * ({@link DarkLines}: an intensity of 0 in a line list or one that became 0 in the list's
+     * scaling; a list intensity whose counts underflow once scaled to the brightest pixel; a
+     * computed population that underflowed), and how many lines lie on the grid. Computed on each
+     * call, in one pass over the lines.
+     *
+     * @return the lines on the grid and the dark ones among them
+     */
+    public DarkLines darkLines() {
+        return DarkLines.find(lines, grid, i -> lineCounts[i] == 0);
+    }
 }
