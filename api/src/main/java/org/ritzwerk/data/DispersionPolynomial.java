@@ -11,9 +11,19 @@ import org.ritzwerk.medium.Medium;
  *   x = (p - centrePixel) / halfRange,     lambda(p) = sum_j a_j x^j   (nm)
  * </pre>
  * their covariance, the pixel range the polynomial was fitted over and the medium of the
- * wavelengths. This record only holds and checks the numbers; evaluating them (wavelength with
+ * wavelengths, and optionally a higher-degree polynomial fitted to the same lines with its
+ * covariance, which bounds the uncertainty beyond the fitted range (see below). This record only
+ * holds and checks the numbers; evaluating them (wavelength with
  * uncertainty at a pixel, the inverse, the dispersion, the monotonicity check) is the engine's
  * {@code org.ritzwerk.engine.calibrate.DispersionSolution}.
+ *
+ * <p><b>Beyond the fitted range.</b> Between its first and last fitted line a polynomial is held
+ * by the lines; beyond them it is extrapolated, and a polynomial of higher degree that fits the
+ * same lines as well may run elsewhere. A fit therefore keeps such a polynomial
+ * ({@link #higherDegreeCoefficients()}, {@link #higherDegreeCovariance()}; the engine's fit keeps
+ * the usual degree 3, or the next degree from 3 up), and the engine states the uncertainty beyond
+ * the range so that it covers it (its own uncertainty plus its distance from this polynomial).
+ * Both are null when the lines did not determine it, and for polynomials made before it was kept.
  *
  * <p><b>Units.</b> Pixels are 0-based with pixel i centred at i. Coefficients in nm, covariance
  * in nm^2, the wavelengths in the {@link #medium()} given.
@@ -29,9 +39,32 @@ import org.ritzwerk.medium.Medium;
  *                     semidefinite; or null when unknown
  * @param lowestPixel  the lowest pixel of the range the polynomial is valid for; finite
  * @param highestPixel the highest pixel of that range; finite, above the lowest
+ * @param higherDegreeCoefficients b_0 .. b_e in nm in the same scaled variable, e &gt; d: a
+ *                                 polynomial of higher degree fitted to the same lines; null
+ *                                 when not known
+ * @param higherDegreeCovariance   their (e + 1) x (e + 1) covariance in nm^2, with the same checks
+ *                                 as the covariance; null exactly when the coefficients are
  */
 public record DispersionPolynomial(Medium medium, double centrePixel, double halfRange, double[] coefficients,
-        double[][] covariance, double lowestPixel, double highestPixel) {
+        double[][] covariance, double lowestPixel, double highestPixel, double[] higherDegreeCoefficients,
+        double[][] higherDegreeCovariance) {
+
+    /**
+     * A polynomial without a higher degree's (see the class comment).
+     *
+     * @param medium       the medium of the wavelengths
+     * @param centrePixel  the pixel at which x = 0; finite
+     * @param halfRange    pixels per unit of x; finite and positive
+     * @param coefficients a_0 .. a_d in nm; at least two, finite
+     * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, or null when unknown
+     * @param lowestPixel  the lowest pixel of the range the polynomial is valid for; finite
+     * @param highestPixel the highest pixel of that range; finite, above the lowest
+     * @throws IllegalArgumentException naming the first unusable component
+     */
+    public DispersionPolynomial(Medium medium, double centrePixel, double halfRange, double[] coefficients,
+            double[][] covariance, double lowestPixel, double highestPixel) {
+        this(medium, centrePixel, halfRange, coefficients, covariance, lowestPixel, highestPixel, null, null);
+    }
 
     /**
      * Validates and copies.
@@ -44,6 +77,9 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
      *                     semidefinite; or null when unknown
      * @param lowestPixel  the lowest pixel of the range the polynomial is valid for; finite
      * @param highestPixel the highest pixel of that range; finite, above the lowest
+     * @param higherDegreeCoefficients b_0 .. b_e in nm, e &gt; d, finite: a higher degree's
+     *                                 polynomial fitted to the same lines; or null
+     * @param higherDegreeCovariance   their covariance in nm^2; null exactly when the coefficients are
      * @throws IllegalArgumentException naming the first unusable component
      */
     public DispersionPolynomial {
@@ -67,26 +103,28 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
         coefficients = coefficients.clone();
         int k = coefficients.length;
         if (covariance != null) {
-            if (covariance.length != k) {
-                throw new IllegalArgumentException("the covariance must be " + k + " x " + k + ", got "
-                        + covariance.length + " rows");
-            }
-            for (int i = 0; i < k; i++) {
-                if (covariance[i].length != k) {
-                    throw new IllegalArgumentException("covariance row " + i + " must have " + k + " entries, got "
-                            + covariance[i].length);
-                }
-            }
-            for (int i = 0; i < k; i++) {
-                for (int j = 0; j < k; j++) {
-                    if (!Double.isFinite(covariance[i][j]) || covariance[i][j] != covariance[j][i]) {
-                        throw new IllegalArgumentException("covariance entry (" + i + ", " + j
-                                + ") must be finite and symmetric, got " + covariance[i][j]);
-                    }
-                }
-            }
-            checkPositiveSemidefinite(covariance);
+            checkCovariance(covariance, k, "");
             covariance = copy(covariance);
+        }
+        if ((higherDegreeCoefficients == null) != (higherDegreeCovariance == null)) {
+            throw new IllegalArgumentException("the higher degree's coefficients and covariance come together: got "
+                    + (higherDegreeCoefficients == null ? "a covariance without coefficients"
+                            : "coefficients without a covariance"));
+        }
+        if (higherDegreeCoefficients != null) {
+            if (higherDegreeCoefficients.length <= k) {
+                throw new IllegalArgumentException("the higher degree's polynomial needs more coefficients than the "
+                        + "polynomial's " + k + ", got " + higherDegreeCoefficients.length);
+            }
+            for (int j = 0; j < higherDegreeCoefficients.length; j++) {
+                if (!Double.isFinite(higherDegreeCoefficients[j])) {
+                    throw new IllegalArgumentException("higher-degree coefficient b" + j + " is not finite: "
+                            + higherDegreeCoefficients[j]);
+                }
+            }
+            higherDegreeCoefficients = higherDegreeCoefficients.clone();
+            checkCovariance(higherDegreeCovariance, higherDegreeCoefficients.length, "higher-degree ");
+            higherDegreeCovariance = copy(higherDegreeCovariance);
         }
         if (!(Double.isFinite(lowestPixel) && Double.isFinite(highestPixel) && highestPixel > lowestPixel)) {
             throw new IllegalArgumentException("the valid range needs finite lowest < highest pixel, got "
@@ -94,23 +132,45 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
         }
     }
 
+    private static void checkCovariance(double[][] covariance, int k, String which) {
+        if (covariance.length != k) {
+            throw new IllegalArgumentException("the " + which + "covariance must be " + k + " x " + k + ", got "
+                    + covariance.length + " rows");
+        }
+        for (int i = 0; i < k; i++) {
+            if (covariance[i].length != k) {
+                throw new IllegalArgumentException(which + "covariance row " + i + " must have " + k + " entries, got "
+                        + covariance[i].length);
+            }
+        }
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j < k; j++) {
+                if (!Double.isFinite(covariance[i][j]) || covariance[i][j] != covariance[j][i]) {
+                    throw new IllegalArgumentException(which + "covariance entry (" + i + ", " + j
+                            + ") must be finite and symmetric, got " + covariance[i][j]);
+                }
+            }
+        }
+        checkPositiveSemidefinite(covariance, which);
+    }
+
     /**
      * A covariance has no negative variances and no negative combination: its correlation matrix
      * (zero-variance rows left out, which must then be zero throughout) has no Cholesky pivot below
      * -1e-9 (rounding of a fit's covariance stays far inside that).
      */
-    private static void checkPositiveSemidefinite(double[][] covariance) {
+    private static void checkPositiveSemidefinite(double[][] covariance, String which) {
         int k = covariance.length;
         double[] scale = new double[k];
         for (int i = 0; i < k; i++) {
             if (covariance[i][i] < 0) {
-                throw new IllegalArgumentException("covariance entry (" + i + ", " + i + ") is a variance and must not "
+                throw new IllegalArgumentException(which + "covariance entry (" + i + ", " + i + ") is a variance and must not "
                         + "be negative, got " + covariance[i][i]);
             }
             scale[i] = Math.sqrt(covariance[i][i]);
             for (int j = 0; j < k; j++) {
                 if (scale[i] == 0 && covariance[i][j] != 0) {
-                    throw new IllegalArgumentException("covariance row " + i + " has variance 0 but covariance "
+                    throw new IllegalArgumentException(which + "covariance row " + i + " has variance 0 but covariance "
                             + covariance[i][j] + " with coefficient " + j);
                 }
             }
@@ -125,7 +185,7 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
                 pivot -= l[j][m] * l[j][m];
             }
             if (pivot < -1e-9) {
-                throw new IllegalArgumentException("the covariance is not positive semidefinite (a combination of the "
+                throw new IllegalArgumentException("the " + which + "covariance is not positive semidefinite (a combination of the "
                         + "coefficients would have a negative variance; pivot " + pivot + " at coefficient " + j + ")");
             }
             double d = Math.sqrt(Math.max(pivot, 0));
@@ -161,6 +221,18 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
     @Override
     public double[][] covariance() {
         return covariance == null ? null : copy(covariance);
+    }
+
+    /** @return b_0 .. b_(d+1) in nm, a copy; null when not known */
+    @Override
+    public double[] higherDegreeCoefficients() {
+        return higherDegreeCoefficients == null ? null : higherDegreeCoefficients.clone();
+    }
+
+    /** @return their covariance in nm^2, a copy; null when not known */
+    @Override
+    public double[][] higherDegreeCovariance() {
+        return higherDegreeCovariance == null ? null : copy(higherDegreeCovariance);
     }
 
     /** @return whether the covariance is known */
@@ -214,13 +286,16 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
                 && Double.compare(centrePixel, that.centrePixel) == 0 && Double.compare(halfRange, that.halfRange) == 0
                 && Arrays.equals(coefficients, that.coefficients) && Arrays.deepEquals(covariance, that.covariance)
                 && Double.compare(lowestPixel, that.lowestPixel) == 0
-                && Double.compare(highestPixel, that.highestPixel) == 0;
+                && Double.compare(highestPixel, that.highestPixel) == 0
+                && Arrays.equals(higherDegreeCoefficients, that.higherDegreeCoefficients)
+                && Arrays.deepEquals(higherDegreeCovariance, that.higherDegreeCovariance);
     }
 
     @Override
     public int hashCode() {
         return Objects.hash(medium, centrePixel, halfRange, Arrays.hashCode(coefficients),
-                Arrays.deepHashCode(covariance), lowestPixel, highestPixel);
+                Arrays.deepHashCode(covariance), lowestPixel, highestPixel, Arrays.hashCode(higherDegreeCoefficients),
+                Arrays.deepHashCode(higherDegreeCovariance));
     }
 
     @Override
@@ -228,6 +303,7 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
         return "DispersionPolynomial[medium=" + medium.spec() + ", centrePixel=" + centrePixel + ", halfRange="
                 + halfRange + ", coefficients=" + Arrays.toString(coefficients) + ", covariance="
                 + Arrays.deepToString(covariance) + ", lowestPixel=" + lowestPixel + ", highestPixel=" + highestPixel
-                + "]";
+                + ", higherDegreeCoefficients=" + Arrays.toString(higherDegreeCoefficients) + ", higherDegreeCovariance="
+                + Arrays.deepToString(higherDegreeCovariance) + "]";
     }
 }

@@ -32,6 +32,9 @@ import tools.jackson.databind.node.ObjectNode;
  *   "centre_pixel": 1023.5, "half_range": 1023.5,
  *   "coefficients_nm": [a0, a1, ...],     wavelength = sum a_k x^k, x = (pixel - centre) / half_range
  *   "covariance_nm2": [[...], ...],       their covariance (null when unknown)
+ *   "higher_degree_coefficients_nm": [b0, ...],  a higher degree's polynomial fitted to the same
+ *   "higher_degree_covariance_nm2": [[...], ...], lines and its covariance: beyond valid_pixels the
+ *                                         stated uncertainty covers it; both absent when unknown
  *   "power_coefficients_nm": [c0, c1, ...] the same polynomial in the pixel itself, for reference
  *   "degree": 3, "rms_nm": ..., "rms_pixels": ..., "reduced_chi_square": ...,
  *   "lines_used": 31, "lines_rejected": 2,
@@ -44,7 +47,9 @@ import tools.jackson.databind.node.ObjectNode;
  * </pre>
  * Pixel p (0-based) has its centre at p. The file holds a {@link CalibrationRecord} (api): the
  * solution's members (medium, pixels, valid_pixels, centre_pixel, half_range, coefficients_nm,
- * covariance_nm2) are required; the record of how it was made (description, rms_nm, rms_pixels,
+ * covariance_nm2) are required, and higher_degree_coefficients_nm with higher_degree_covariance_nm2
+ * are read when present (a file written before they were kept has none: its uncertainty beyond
+ * valid_pixels is then the covariance's alone); the record of how it was made (description, rms_nm, rms_pixels,
  * reduced_chi_square, lines, saturated_lines) may be absent or null (a hand-written file of
  * stored coefficients), and is checked when present: each line's residual_nm must be its
  * wavelength minus the solution at its pixel (to 1e-6 nm), so a file whose coefficients were
@@ -183,13 +188,14 @@ public final class CalibrationFiles {
         if (covariance == null) {
             root.putNull("covariance_nm2");
         } else {
-            ArrayNode rows = root.putArray("covariance_nm2");
-            for (double[] row : covariance) {
-                ArrayNode r = rows.addArray();
-                for (double v : row) {
-                    r.add(v);
-                }
+            putMatrix(root, "covariance_nm2", covariance);
+        }
+        if (polynomial.higherDegreeCoefficients() != null) {
+            ArrayNode higher = root.putArray("higher_degree_coefficients_nm");
+            for (double c : polynomial.higherDegreeCoefficients()) {
+                higher.add(c);
             }
+            putMatrix(root, "higher_degree_covariance_nm2", polynomial.higherDegreeCovariance());
         }
         ArrayNode power = root.putArray("power_coefficients_nm");
         for (double c : polynomial.powerCoefficients()) {
@@ -305,27 +311,22 @@ public final class CalibrationFiles {
         double centre = number(source, root, "centre_pixel");
         double halfRange = number(source, root, "half_range");
         double[] coefficients = numbers(source, root, "coefficients_nm");
-        double[][] covariance = null;
-        JsonNode cov = root.get("covariance_nm2");
-        if (cov != null && !cov.isNull()) {
-            if (!cov.isArray() || cov.size() != coefficients.length) {
-                throw invalid(source, "\"covariance_nm2\" must be a " + coefficients.length + " x "
-                        + coefficients.length + " array (one row per coefficient) or null");
-            }
-            covariance = new double[coefficients.length][];
-            for (int r = 0; r < coefficients.length; r++) {
-                covariance[r] = numbers(source, cov.get(r), "covariance_nm2 row " + r);
-                if (covariance[r].length != coefficients.length) {
-                    throw invalid(source, "\"covariance_nm2\" row " + r + " has " + covariance[r].length
-                            + " values, expected " + coefficients.length);
-                }
+        double[][] covariance = matrix(source, root, "covariance_nm2", coefficients.length);
+        double[] higher = null;
+        double[][] higherCovariance = null;
+        if (root.get("higher_degree_coefficients_nm") != null || root.get("higher_degree_covariance_nm2") != null) {
+            higher = numbers(source, root, "higher_degree_coefficients_nm");
+            higherCovariance = matrix(source, root, "higher_degree_covariance_nm2", higher.length);
+            if (higherCovariance == null) {
+                throw invalid(source, "\"higher_degree_covariance_nm2\" must be given with "
+                        + "\"higher_degree_coefficients_nm\"");
             }
         }
         String description = root.path("description").asString("");
         DispersionPolynomial polynomial;
         try {
             polynomial = new DispersionPolynomial(medium, centre, halfRange, coefficients, covariance, valid[0],
-                    valid[1]);
+                    valid[1], higher, higherCovariance);
         } catch (IllegalArgumentException e) {
             throw invalid(source, e.getMessage());
         }
@@ -527,6 +528,37 @@ public final class CalibrationFiles {
             throw invalid(source, "\"" + name + "\" must be a finite number, got " + TabularFiles.shown(v));
         }
         return v.asDouble();
+    }
+
+    private static void putMatrix(ObjectNode root, String member, double[][] matrix) {
+        ArrayNode rows = root.putArray(member);
+        for (double[] row : matrix) {
+            ArrayNode r = rows.addArray();
+            for (double v : row) {
+                r.add(v);
+            }
+        }
+    }
+
+    /** An n x n matrix member, one row per coefficient; null when absent or null. */
+    private static double[][] matrix(String source, JsonNode root, String member, int n) {
+        JsonNode node = root.get(member);
+        if (node == null || node.isNull()) {
+            return null;
+        }
+        if (!node.isArray() || node.size() != n) {
+            throw invalid(source, "\"" + member + "\" must be a " + n + " x " + n
+                    + " array (one row per coefficient) or null");
+        }
+        double[][] matrix = new double[n][];
+        for (int r = 0; r < n; r++) {
+            matrix[r] = numbers(source, node.get(r), member + " row " + r);
+            if (matrix[r].length != n) {
+                throw invalid(source, "\"" + member + "\" row " + r + " has " + matrix[r].length
+                        + " values, expected " + n);
+            }
+        }
+        return matrix;
     }
 
     private static double[] numbers(String source, JsonNode node, String name) {

@@ -54,6 +54,28 @@ class CalibrationRecordReadBackTest {
         return r.nextInt(4) == 0 ? Double.NaN : Math.abs(anyDouble(r));
     }
 
+    /** L L^T of a random lower-triangular L: a covariance (positive semidefinite), exactly symmetric. */
+    private static double[][] anyCovariance(SplittableRandom r, int k) {
+        double[][] l = new double[k][k];
+        for (int i = 0; i < k; i++) {
+            l[i][i] = Math.sqrt(Math.pow(10, -14 + 10 * r.nextDouble()));
+            for (int j = 0; j < i; j++) {
+                l[i][j] = (r.nextDouble() - 0.5) * l[i][i];
+            }
+        }
+        double[][] covariance = new double[k][k];
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j < k; j++) {
+                double v = 0;
+                for (int m = 0; m <= Math.min(i, j); m++) {
+                    v += l[i][m] * l[j][m];
+                }
+                covariance[i][j] = v;
+            }
+        }
+        return covariance;
+    }
+
     /** A random record whose polynomial passes the reader's check across the detector. */
     static CalibrationRecord anyRecord(SplittableRandom r, int pixels) {
         double centre = (pixels - 1) / 2.0 + (r.nextDouble() - 0.5) * 0.1 * pixels;
@@ -67,33 +89,24 @@ class CalibrationRecordReadBackTest {
             a[j] = (r.nextDouble() - 0.5) * 0.02 * Math.abs(slope) / (j * Math.pow(2, j));
         }
         a[0] = 100 + 4 * Math.abs(slope) + 2000 * r.nextDouble();
-        double[][] covariance = null;
-        if (r.nextInt(3) != 0) {
-            // L L^T of a random lower-triangular L: a covariance (positive semidefinite), exactly symmetric
-            double[][] l = new double[degree + 1][degree + 1];
-            for (int i = 0; i <= degree; i++) {
-                l[i][i] = Math.sqrt(Math.pow(10, -14 + 10 * r.nextDouble()));
-                for (int j = 0; j < i; j++) {
-                    l[i][j] = (r.nextDouble() - 0.5) * l[i][i];
-                }
+        double[][] covariance = r.nextInt(3) != 0 ? anyCovariance(r, degree + 1) : null;
+        // a fit's higher-degree polynomial (its uncertainty beyond the valid range): the same terms
+        // and one or two small ones more, with a covariance of its own
+        double[] higher = null;
+        double[][] higherCovariance = null;
+        if (covariance != null && r.nextBoolean()) {
+            higher = java.util.Arrays.copyOf(a, a.length + 1 + r.nextInt(2));
+            for (int j = a.length; j < higher.length; j++) {
+                higher[j] = (r.nextDouble() - 0.5) * 0.02 * Math.abs(slope) / (j * Math.pow(2, j));
             }
-            covariance = new double[degree + 1][degree + 1];
-            for (int i = 0; i <= degree; i++) {
-                for (int j = 0; j <= degree; j++) {
-                    double v = 0;
-                    for (int k = 0; k <= Math.min(i, j); k++) {
-                        v += l[i][k] * l[j][k];
-                    }
-                    covariance[i][j] = v;
-                }
-            }
+            higherCovariance = anyCovariance(r, higher.length);
         }
         // The valid range lies on the detector (-0.5 to pixels - 0.5), and within the used lines' pixels below.
         double lowest = -0.5 + r.nextDouble() * pixels / 3;
         double highest = lowest + 1e-6 + r.nextDouble() * (pixels - 0.5 - lowest - 1e-6);
         Medium medium = Medium.parse(MEDIA[r.nextInt(MEDIA.length)]);
         DispersionPolynomial polynomial = new DispersionPolynomial(medium, centre, halfRange, a, covariance, lowest,
-                highest);
+                highest, higher, higherCovariance);
         if (r.nextInt(5) == 0) {
             return CalibrationRecord.of(anyText(r, 0, 30), pixels, polynomial);
         }
@@ -121,7 +134,7 @@ class CalibrationRecordReadBackTest {
             // a fit's valid range is its used lines' span (the reader refuses one reaching beyond it)
             double span = usedHi - usedLo;
             polynomial = new DispersionPolynomial(medium, centre, halfRange, a, covariance,
-                    usedLo + r.nextDouble() * span / 3, usedHi - r.nextDouble() * span / 3);
+                    usedLo + r.nextDouble() * span / 3, usedHi - r.nextDouble() * span / 3, higher, higherCovariance);
         } else if (usedLo == usedHi) {
             // one used line spans no range: a fit never has one alone, so it is left out of the fit here
             for (int i = 0; i < lines.size(); i++) {
@@ -190,6 +203,15 @@ class CalibrationRecordReadBackTest {
             assertEquals(fitted.wavelengthAt(p), again.wavelengthAt(p));
             assertEquals(fitted.wavelengthSigmaAt(p), again.wavelengthSigmaAt(p));
         }
+        // Beyond the fitted pairs (10 to 1000) the stated uncertainty is bounded by the kept
+        // higher-degree polynomial, which the file carries; without it, only the covariance counts.
+        DispersionPolynomial kept = back.polynomial();
+        assertEquals(3, kept.higherDegreeCoefficients().length - 1);
+        DispersionSolution covarianceOnly = DispersionSolution.of(new DispersionPolynomial(kept.medium(),
+                kept.centrePixel(), kept.halfRange(), kept.coefficients(), kept.covariance(), kept.lowestPixel(),
+                kept.highestPixel()));
+        assertTrue(again.wavelengthSigmaAt(1023) > covarianceOnly.wavelengthSigmaAt(1023));
+        assertEquals(covarianceOnly.wavelengthSigmaAt(500), again.wavelengthSigmaAt(500));
         // The solution-based writer is the record writer.
         assertEquals(CalibrationFiles.toJson(fitted, 1024, "invented pairs", labels),
                 CalibrationFiles.toJson(fitted.toRecord(1024, "invented pairs", labels, List.of())));
@@ -230,5 +252,30 @@ class CalibrationRecordReadBackTest {
                         + "\"residual_pixels\":0,\"used\":true,\"line\":\"Ne I\"}]}"));
         assertTrue(sigma.getMessage().contains("\"lines\"[0]: sigma_nm of line 'Ne I' must be finite and >= 0"),
                 sigma.getMessage());
+    }
+
+    @Test
+    void aBadHigherDegreePolynomialIsNamed() {
+        String head = "{\"format\":\"ritzwerk-calibration\",\"version\":1,\"medium\":\"air\",\"pixels\":100,"
+                + "\"valid_pixels\":[0,99],\"centre_pixel\":49.5,\"half_range\":49.5,\"coefficients_nm\":[500,5],"
+                + "\"covariance_nm2\":[[1e-6,0],[0,1e-6]],";
+        String[][] cases = {
+            {"\"higher_degree_coefficients_nm\":[500,5,0.01]}",
+                "\"higher_degree_covariance_nm2\" must be given with \"higher_degree_coefficients_nm\""},
+            {"\"higher_degree_covariance_nm2\":[[1]]}",
+                "\"higher_degree_coefficients_nm\" must be a non-empty array of numbers"},
+            {"\"higher_degree_coefficients_nm\":[500,5,0.01],\"higher_degree_covariance_nm2\":[[1,0],[0,1]]}",
+                "\"higher_degree_covariance_nm2\" must be a 3 x 3 array"},
+            {"\"higher_degree_coefficients_nm\":[500,5],\"higher_degree_covariance_nm2\":[[1,0],[0,1]]}",
+                "the higher degree's polynomial needs more coefficients than the polynomial's 2, got 2"},
+            {"\"higher_degree_coefficients_nm\":[500,5,0.01],"
+                + "\"higher_degree_covariance_nm2\":[[1,0,0],[0,-1,0],[0,0,1]]}",
+                "higher-degree covariance entry (1, 1) is a variance and must not be negative"},
+        };
+        for (String[] c : cases) {
+            DataFileException e = assertThrows(DataFileException.class,
+                    () -> CalibrationFiles.parseRecord("c.json", head + c[0]));
+            assertTrue(e.getMessage().contains("c.json") && e.getMessage().contains(c[1]), e.getMessage());
+        }
     }
 }

@@ -219,7 +219,10 @@ public final class Schemas {
      * {@code vacuum}), {@code degree}, {@code centre_pixel}, {@code half_range},
      * {@code coefficients} (a_0 .. a_d in nm of x = (pixel - centre_pixel) / half_range),
      * {@code covariance} (their (d + 1) x (d + 1) covariance in nm^2, row by row),
-     * {@code lowest_pixel}, {@code highest_pixel}; quality: {@code rms_nm}, {@code rms_pixels},
+     * {@code higher_degree_coefficients} and {@code higher_degree_covariance} (a higher degree's
+     * polynomial fitted to the same lines, b_0 .. b_e, and its (e + 1) x (e + 1) covariance row by
+     * row: beyond the fitted range the stated uncertainty covers it, as the api's
+     * {@code DispersionPolynomial} keeps it), {@code lowest_pixel}, {@code highest_pixel}; quality: {@code rms_nm}, {@code rms_pixels},
      * {@code reduced_chi_square}, {@code lines_used}, {@code lines_rejected},
      * {@code peaks_found}, {@code strong_peaks}, {@code strong_matched},
      * {@code matched_fraction}, {@code coverage} (fraction of the detector between the outermost
@@ -249,6 +252,9 @@ public final class Schemas {
      * if not finite, which an accepted calibration does not give);</li>
      * <li>null when refused, and in an accepted row when the solution has no covariance (an
      * element of it undefined): {@code covariance};</li>
+     * <li>null when refused, and in an accepted row when the lines did not determine a higher
+     * degree with a degree of freedom to spare, or the solution has no covariance (both then null
+     * together): {@code higher_degree_coefficients}, {@code higher_degree_covariance};</li>
      * <li>null when refused, and in an accepted row when too few pairs remain for the degree to
      * predict an outermost line, or the fit has no covariance: {@code end_check_low_pixels},
      * {@code end_check_high_pixels};</li>
@@ -264,6 +270,8 @@ public final class Schemas {
             optional("half_range", DataTypes.DoubleType),
             optional("coefficients", DOUBLES),
             optional("covariance", DOUBLES),
+            optional("higher_degree_coefficients", DOUBLES),
+            optional("higher_degree_covariance", DOUBLES),
             optional("lowest_pixel", DataTypes.DoubleType),
             optional("highest_pixel", DataTypes.DoubleType),
             optional("rms_nm", DataTypes.DoubleType),

@@ -120,7 +120,8 @@ public final class SurveyCalibration {
 
     /** The columns of a calibration that applying it reads, in this order after the science columns. */
     private static final String[] APPLIED = {"id", "pixels", "medium", "centre_pixel", "half_range", "coefficients",
-        "covariance", "lowest_pixel", "highest_pixel", "failure_code", "failure"};
+        "covariance", "higher_degree_coefficients", "higher_degree_covariance", "lowest_pixel", "highest_pixel",
+        "failure_code", "failure"};
 
     /**
      * @param science      a table with the columns of {@link Schemas#SCIENCE}
@@ -193,7 +194,8 @@ public final class SurveyCalibration {
         Dataset<Row> joined = left.join(solutions, left.col("calibration_id").equalTo(solutions.col("c_id")), "left")
                 .select(left.col("id"), left.col("calibration_id"), left.col("counts"), col("c_id"), col("c_pixels"),
                         col("c_medium"), col("c_centre_pixel"), col("c_half_range"), col("c_coefficients"),
-                        col("c_covariance"), col("c_lowest_pixel"), col("c_highest_pixel"), col("c_failure_code"),
+                        col("c_covariance"), col("c_higher_degree_coefficients"), col("c_higher_degree_covariance"),
+                        col("c_lowest_pixel"), col("c_highest_pixel"), col("c_failure_code"),
                         col("c_failure"), left.col(Setups.COPIES), col("c_copies"));
         return joined;
     }
@@ -252,20 +254,13 @@ public final class SurveyCalibration {
                         .prior(prior).source(id).build());
             } catch (RitzwerkException e) {
                 return Catalyst.row(Catalyst.utf8(id), pixels, null, null, null, null, null, null, null, null, null,
-                        null, null, null, null, null, null, null, null, null, null, null, null, null, null,
+                        null, null, null, null, null, null, null, null, null, null, null, null, null, null, null, null,
                         Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()), notes(lampNotes));
             }
             DispersionSolution solution = calibration.solution();
             DispersionPolynomial polynomial = solution.polynomial();
-            double[][] c = polynomial.covariance();
-            double[] covariance = null;
-            if (c != null) {
-                int k = c.length;
-                covariance = new double[k * k];
-                for (int i = 0; i < k; i++) {
-                    System.arraycopy(c[i], 0, covariance, i * k, k);
-                }
-            }
+            double[] covariance = flat(polynomial.covariance());
+            double[] higherCovariance = flat(polynomial.higherDegreeCovariance());
             List<String> labels = calibration.pairLabels();
             Object[] lines = new Object[labels.size()];
             for (int k = 0; k < lines.length; k++) {
@@ -273,7 +268,8 @@ public final class SurveyCalibration {
             }
             return Catalyst.row(Catalyst.utf8(id), pixels, Catalyst.utf8(polynomial.medium().spec()), solution.degree(),
                     polynomial.centrePixel(), polynomial.halfRange(), Catalyst.doubles(polynomial.coefficients()),
-                    Catalyst.doubles(covariance), polynomial.lowestPixel(), polynomial.highestPixel(),
+                    Catalyst.doubles(covariance), Catalyst.doubles(polynomial.higherDegreeCoefficients()),
+                    Catalyst.doubles(higherCovariance), polynomial.lowestPixel(), polynomial.highestPixel(),
                     finite(solution.rmsNm()), finite(solution.rmsPixels()), finite(solution.reducedChiSquare()),
                     solution.usedCount(), solution.rejectedCount(), calibration.peaks().size(),
                     calibration.strongPeaks(), calibration.strongMatched(), finite(calibration.matchedFraction()),
@@ -281,6 +277,19 @@ public final class SurveyCalibration {
                     Catalyst.utf8(calibration.description()), finite(calibration.endConfirmationPixels(false)),
                     finite(calibration.endConfirmationPixels(true)), null, null,
                     notes(lampNotes, calibration.notes()));
+        }
+
+        /** A square matrix row by row; null for null. */
+        private static double[] flat(double[][] matrix) {
+            if (matrix == null) {
+                return null;
+            }
+            int k = matrix.length;
+            double[] flat = new double[k * k];
+            for (int i = 0; i < k; i++) {
+                System.arraycopy(matrix[i], 0, flat, i * k, k);
+            }
+            return flat;
         }
 
         @SafeVarargs
@@ -324,15 +333,15 @@ public final class SurveyCalibration {
             if (row.isNullAt(2)) {
                 throw bad(id, "counts", "is null");
             }
-            if (!row.isNullAt(14)) {
-                throw Setups.repeatedId(id, row.getLong(14), "science");
+            if (!row.isNullAt(16)) {
+                throw Setups.repeatedId(id, row.getLong(16), "science");
             }
             List<Object> counts = row.getList(2);
             if (row.isNullAt(3)) {
                 throw bad(id, "calibration_id", "no calibration has the id '" + calibrationId + "'");
             }
-            if (row.getLong(15) > 1) {
-                throw bad(id, "calibration_id", "the calibrations table has " + row.getLong(15) + " rows with the id '"
+            if (row.getLong(17) > 1) {
+                throw bad(id, "calibration_id", "the calibrations table has " + row.getLong(17) + " rows with the id '"
                         + calibrationId + "'; each calibration needs its own id");
             }
             if (row.isNullAt(4)) {
@@ -354,38 +363,46 @@ public final class SurveyCalibration {
                     throw bad(id, "counts", "element " + i + " is " + values[i] + "; each must be finite");
                 }
             }
-            if (!row.isNullAt(12)) {
+            if (!row.isNullAt(14)) {
                 // One refused lamp exposure a night is normal: its spectra keep their rows, refused (the
                 // calibration's code, and a message naming it), and the job goes on.
-                return RowFactory.create(id, calibrationId, values, null, null, null, row.getString(12),
-                        "calibration '" + calibrationId + "' was refused (" + row.getString(12) + ": "
-                        + row.getString(13) + "); there is nothing to apply");
+                return RowFactory.create(id, calibrationId, values, null, null, null, row.getString(14),
+                        "calibration '" + calibrationId + "' was refused (" + row.getString(14) + ": "
+                        + row.getString(15) + "); there is nothing to apply");
             }
             double[] coefficients = doubles(row.getList(8));
-            double[][] covariance = null;
-            if (!row.isNullAt(9)) {
-                double[] flat = doubles(row.getList(9));
-                int k = coefficients.length;
-                if (flat.length != k * k) {
-                    throw bad(id, "calibration_id", "calibration '" + calibrationId + "' has " + k
-                            + " coefficients but " + flat.length + " covariance elements, not " + k * k);
-                }
-                covariance = new double[k][k];
-                for (int i = 0; i < k; i++) {
-                    System.arraycopy(flat, i * k, covariance[i], 0, k);
-                }
-            }
+            double[][] covariance = square(row, 9, coefficients.length, id, calibrationId, "covariance");
+            double[] higher = row.isNullAt(10) ? null : doubles(row.getList(10));
+            double[][] higherCovariance = higher == null ? null
+                    : square(row, 11, higher.length, id, calibrationId, "higher_degree_covariance");
             Medium medium = Medium.parse(row.getString(5));
             DispersionSolution solution;
             try {
                 solution = DispersionSolution.of(new DispersionPolynomial(medium, row.getDouble(6), row.getDouble(7),
-                        coefficients, covariance, row.getDouble(10), row.getDouble(11)));
+                        coefficients, covariance, row.getDouble(12), row.getDouble(13), higher, higherCovariance));
             } catch (RuntimeException e) {
                 throw bad(id, "calibration_id", "calibration '" + calibrationId + "' is not a usable polynomial: "
                         + e.getMessage());
             }
             return RowFactory.create(id, calibrationId, values, solution.pixelCentreWavelengths(pixels),
                     solution.pixelCentreWavelengthSigmas(pixels), medium.spec(), null, null);
+        }
+
+        /** The k x k matrix stored row by row in a column; null when the column is null. */
+        private static double[][] square(Row row, int column, int k, String id, String calibrationId, String name) {
+            if (row.isNullAt(column)) {
+                return null;
+            }
+            double[] flat = doubles(row.getList(column));
+            if (flat.length != k * k) {
+                throw bad(id, "calibration_id", "calibration '" + calibrationId + "' has " + k
+                        + " coefficients but " + flat.length + " " + name + " elements, not " + k * k);
+            }
+            double[][] matrix = new double[k][k];
+            for (int i = 0; i < k; i++) {
+                System.arraycopy(flat, i * k, matrix[i], 0, k);
+            }
+            return matrix;
         }
 
         private static double[] doubles(List<Object> list) {

@@ -86,23 +86,35 @@ class SurveyCalibrationTest {
                     assertEquals(covariance[i][j], flatCovariance.get(i * covariance.length + j));
                 }
             }
-            assertEquals(s.lowestPixel(), row.getDouble(8));
-            assertEquals(s.highestPixel(), row.getDouble(9));
-            assertEquals(s.rmsNm(), row.getDouble(10));
-            assertEquals(s.rmsPixels(), row.getDouble(11));
-            assertEquals(s.reducedChiSquare(), row.getDouble(12));
-            assertEquals(s.usedCount(), row.getInt(13));
-            assertEquals(s.rejectedCount(), row.getInt(14));
-            assertEquals(c.peaks().size(), row.getInt(15));
-            assertEquals(c.strongPeaks(), row.getInt(16));
-            assertEquals(c.strongMatched(), row.getInt(17));
-            assertEquals(c.matchedFraction(), row.getDouble(18));
-            assertEquals(c.coverage(), row.getDouble(19));
-            assertEquals(c.saturatedPeaks(), row.getInt(20));
-            assertEquals(c.pairLabels(), row.getList(21));
-            assertEquals(c.description(), row.getString(22));
-            assertEquals(c.endConfirmationPixels(false), row.isNullAt(23) ? Double.NaN : row.getDouble(23));
-            assertEquals(c.endConfirmationPixels(true), row.isNullAt(24) ? Double.NaN : row.getDouble(24));
+            double[] higher = s.polynomial().higherDegreeCoefficients();
+            assertTrue(higher != null, id + ": the fit keeps a higher degree's polynomial");
+            assertArrayEquals(higher, doubles(row.getList(8)), id);
+            if (higher != null) {
+                double[][] higherCovariance = s.polynomial().higherDegreeCovariance();
+                List<Double> flatHigher = row.getList(9);
+                for (int i = 0; i < higher.length; i++) {
+                    for (int j = 0; j < higher.length; j++) {
+                        assertEquals(higherCovariance[i][j], flatHigher.get(i * higher.length + j));
+                    }
+                }
+            }
+            assertEquals(s.lowestPixel(), row.getDouble(10));
+            assertEquals(s.highestPixel(), row.getDouble(11));
+            assertEquals(s.rmsNm(), row.getDouble(12));
+            assertEquals(s.rmsPixels(), row.getDouble(13));
+            assertEquals(s.reducedChiSquare(), row.getDouble(14));
+            assertEquals(s.usedCount(), row.getInt(15));
+            assertEquals(s.rejectedCount(), row.getInt(16));
+            assertEquals(c.peaks().size(), row.getInt(17));
+            assertEquals(c.strongPeaks(), row.getInt(18));
+            assertEquals(c.strongMatched(), row.getInt(19));
+            assertEquals(c.matchedFraction(), row.getDouble(20));
+            assertEquals(c.coverage(), row.getDouble(21));
+            assertEquals(c.saturatedPeaks(), row.getInt(22));
+            assertEquals(c.pairLabels(), row.getList(23));
+            assertEquals(c.description(), row.getString(24));
+            assertEquals(c.endConfirmationPixels(false), row.isNullAt(25) ? Double.NaN : row.getDouble(25));
+            assertEquals(c.endConfirmationPixels(true), row.isNullAt(26) ? Double.NaN : row.getDouble(26));
             assertEquals(c.notes(), row.getList(row.fieldIndex("notes")), id);
             // The saved-file path of the README: write, read, apply.
             Path file = folder.resolve(id + ".json");
@@ -328,7 +340,7 @@ class SurveyCalibrationTest {
                     .source("he-1").build());
             assertNull(row.getAs("failure"), "R " + r);
             assertArrayEquals(c.solution().polynomial().coefficients(), doubles(row.getList(6)), "R " + r);
-            assertEquals(c.pairLabels(), row.getList(21));
+            assertEquals(c.pairLabels(), row.getList(row.fieldIndex("lines")));
             assertTrue(c.pairLabels().stream().anyMatch(l -> l.contains("blended")), "587.6 nm as one line");
             // The lamp's making is said in the row, as the command says it in a note.
             List<String> notes = new ArrayList<>(org.ritzwerk.refdata.DataLines.calibrationLamp(data, List.of(he),

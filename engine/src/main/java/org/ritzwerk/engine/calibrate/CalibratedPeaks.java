@@ -1,6 +1,7 @@
 package org.ritzwerk.engine.calibrate;
 
 import java.util.Objects;
+import java.util.function.DoubleUnaryOperator;
 import org.ritzwerk.engine.identify.PeakList;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
@@ -47,6 +48,16 @@ public final class CalibratedPeaks {
      * @return the peaks on its wavelength axis
      */
     public static CalibratedPeaks of(Peaks peaks, DispersionSolution solution) {
+        Objects.requireNonNull(solution, "solution");
+        return of(peaks, solution, solution::wavelengthSigmaAt);
+    }
+
+    /**
+     * The peaks on a solution's wavelength axis with the solution's uncertainty taken from
+     * sigmaAt (nm at a pixel): the calibration's own search uses the covariance alone
+     * ({@link DispersionSolution#covarianceSigmaAt}), which its windows were tuned with.
+     */
+    static CalibratedPeaks of(Peaks peaks, DispersionSolution solution, DoubleUnaryOperator sigmaAt) {
         Objects.requireNonNull(peaks, "peaks");
         Objects.requireNonNull(solution, "solution");
         int n = peaks.size();
@@ -59,7 +70,7 @@ public final class CalibratedPeaks {
         for (int k = 0; k < n; k++) {
             double c = peaks.centre(k);
             double slope = solution.dispersionAt(c);
-            double fromSolution = solution.wavelengthSigmaAt(c);
+            double fromSolution = sigmaAt.applyAsDouble(c);
             nm[k] = solution.wavelengthAt(c);
             sigma[k] = Math.hypot(slope * peaks.centreSigma(k), Double.isNaN(fromSolution) ? 0 : fromSolution);
             fwhm[k] = Math.abs(slope) * peaks.fwhm(k);

@@ -162,7 +162,7 @@ public final class Calibration {
             DispersionSolution others = DispersionFit.ofDegree(degree).fit(pixel, pixelSigma, nm, nmSigma,
                     solution.medium());
             double p = solution.pixel(end);
-            return others.wavelengthSigmaAt(p) / Math.abs(others.dispersionAt(p));
+            return others.covarianceSigmaAt(p) / Math.abs(others.dispersionAt(p));
         } catch (IllegalArgumentException e) {
             return Double.NaN; // the others alone do not fix a solution of this degree
         }

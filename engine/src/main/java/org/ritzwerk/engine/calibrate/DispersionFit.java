@@ -261,9 +261,22 @@ public final class DispersionFit {
                 }
             }
         }
+        NextDegree next = higherDegree(pass.degree() + 1, x, pixelSigma, wavelengthNm, wavelengthSigmaNm, use, used,
+                half, weighted);
+        // Beyond the used pairs: at least the usual degree, for a low degree's fit assumed away
+        // the terms a grating's dispersion usually has, and the next degree alone may miss them (a
+        // cubic's inflection in the middle of a narrow range looks straight and not curved).
+        NextDegree beyond = next;
+        for (int d = Math.max(pass.degree() + 1, USUAL_DEGREE); d > pass.degree() + 1; d--) {
+            NextDegree higher = higherDegree(d, x, pixelSigma, wavelengthNm, wavelengthSigmaNm, use, used, half,
+                    weighted);
+            if (higher != null) {
+                beyond = higher;
+                break;
+            }
+        }
         double nextScale = degree > 0 || pass.degree() >= Math.min(maxDegree, USUAL_DEGREE) ? 1
-                : nextDegreeScale(pass, covariance, x, pixelSigma, wavelengthNm, wavelengthSigmaNm, use, used, half,
-                        weighted, (usedLo - centre) / half, (usedHi - centre) / half);
+                : nextDegreeScale(pass, covariance, next, (usedLo - centre) / half, (usedHi - centre) / half);
         if (nextScale > 1) {
             for (double[] row : covariance) {
                 for (int j = 0; j < k; j++) {
@@ -281,7 +294,8 @@ public final class DispersionFit {
             rejected[i] = !use[i];
         }
         return new DispersionSolution(centre, half, a, covariance, scale, modelScale, medium, chi, dof, usedLo,
-                usedHi, pixel.clone(), wavelengthNm.clone(), sigma, residual, rejected, criterion);
+                usedHi, pixel.clone(), wavelengthNm.clone(), sigma, residual, rejected, criterion,
+                beyond == null ? null : beyond.coefficients, beyond == null ? null : beyond.scaledCovariance());
     }
 
     /**
@@ -341,7 +355,7 @@ public final class DispersionFit {
         double factor = 0;
         for (int step = 0; step <= 64; step++) {
             double x = xLo + (xHi - xLo) * step / 64.0;
-            double own = quadraticForm(chosenCovariance, x);
+            double own = PolynomialLeastSquares.quadraticForm(chosenCovariance, x);
             if (!(own > 0) || Double.isInfinite(own)) {
                 return 1;
             }
@@ -350,7 +364,8 @@ public final class DispersionFit {
             for (int d = 1; d < tried.length; d++) {
                 if (weight[d] > 0) {
                     double shift = PolynomialLeastSquares.evaluate(tried[d].solution.coefficients(), x) - lambda;
-                    unconditional += weight[d] / total * (quadraticForm(covariance[d], x) + shift * shift);
+                    unconditional += weight[d] / total
+                            * (PolynomialLeastSquares.quadraticForm(covariance[d], x) + shift * shift);
                 }
             }
             factor += unconditional / own / 65;
@@ -378,37 +393,69 @@ public final class DispersionFit {
      * cubic under automatic(5) then covered every error within two stated uncertainties, where 95 %
      * is right; CalibrationEndToEndTest).
      */
-    private static double nextDegreeScale(Pass chosen, double[][] chosenCovariance, double[] x, double[] pixelSigma,
-            double[] wavelengthNm, double[] lineSigma, boolean[] use, int used, double half, boolean weighted,
-            double xLo, double xHi) {
-        int next = chosen.degree() + 1;
-        if (used < next + 2) {
+    private static double nextDegreeScale(Pass chosen, double[][] chosenCovariance, NextDegree next, double xLo,
+            double xHi) {
+        if (next == null) {
             return 1;
+        }
+        double[] a = chosen.solution.coefficients();
+        double factor = 1;
+        for (int step = 0; step <= 64; step++) {
+            double at = xLo + (xHi - xLo) * step / 64.0;
+            double stated = PolynomialLeastSquares.quadraticForm(chosenCovariance, at);
+            if (!(stated > 0) || Double.isInfinite(stated)) {
+                return 1;
+            }
+            double shift = PolynomialLeastSquares.evaluate(next.coefficients, at)
+                    - PolynomialLeastSquares.evaluate(a, at);
+            factor = Math.max(factor, (PolynomialLeastSquares.quadraticForm(next.covariance, at) * next.scale
+                    + shift * shift) / stated);
+        }
+        return Double.isFinite(factor) ? factor : 1;
+    }
+
+    /**
+     * A polynomial of a degree above the chosen one fitted to the same used pairs, with its
+     * covariance scaled as the chosen one's is (Birge ratio squared, at least 1 for a weighted
+     * fit): null when the pairs do not determine it with a degree of freedom to spare (degree + 2
+     * pairs) or its scaling is not finite. It measures what the chosen degree assumed away: the
+     * next degree between the pairs for a low degree ({@link #nextDegreeScale}), and the next or
+     * the usual degree beyond them for every degree ({@link DispersionSolution#wavelengthSigmaAt}).
+     */
+    private static NextDegree higherDegree(int next, double[] x, double[] pixelSigma, double[] wavelengthNm,
+            double[] lineSigma, boolean[] use, int used, double half, boolean weighted) {
+        if (used < next + 2) {
+            return null;
         }
         Pass higher = weightedFit(x, pixelSigma, wavelengthNm, lineSigma, use, next, half, weighted);
         if (higher == null) {
-            return 1;
+            return null;
         }
         int dof = used - (next + 1);
         double reduced = higher.solution.chiSquare() / dof;
         double s = weighted ? Math.max(1, reduced) : reduced;
         if (!(s > 0) || Double.isInfinite(s)) {
-            return 1;
+            return null;
         }
-        double[] a = chosen.solution.coefficients();
-        double[] b = higher.solution.coefficients();
-        double[][] own = higher.solution.covariance();
-        double factor = 1;
-        for (int step = 0; step <= 64; step++) {
-            double at = xLo + (xHi - xLo) * step / 64.0;
-            double stated = quadraticForm(chosenCovariance, at);
-            if (!(stated > 0) || Double.isInfinite(stated)) {
-                return 1;
+        return new NextDegree(higher.solution.coefficients(), higher.solution.covariance(), s);
+    }
+
+    /**
+     * A higher degree's coefficients, their unscaled covariance and its scale (see
+     * {@link #higherDegree}).
+     */
+    private record NextDegree(double[] coefficients, double[][] covariance, double scale) {
+
+        double[][] scaledCovariance() {
+            double[][] scaled = new double[covariance.length][];
+            for (int r = 0; r < scaled.length; r++) {
+                scaled[r] = covariance[r].clone();
+                for (int j = 0; j < scaled[r].length; j++) {
+                    scaled[r][j] *= scale;
+                }
             }
-            double shift = PolynomialLeastSquares.evaluate(b, at) - PolynomialLeastSquares.evaluate(a, at);
-            factor = Math.max(factor, (quadraticForm(own, at) * s + shift * shift) / stated);
+            return scaled;
         }
-        return Double.isFinite(factor) ? factor : 1;
     }
 
     private record Pass(PolynomialLeastSquares.Solution solution, double[] weight) {
@@ -465,7 +512,7 @@ public final class DispersionFit {
                 // sqrt(1 - h), a lone end line the polynomial bends to take is seen as far off as
                 // it is (studentized residual; common practice, e.g. R. D. Cook and S. Weisberg,
                 // Residuals and Influence in Regression, 1982).
-                double leverage = pass.weight[i] * quadraticForm(covariance, x[i]);
+                double leverage = pass.weight[i] * PolynomialLeastSquares.quadraticForm(covariance, x[i]);
                 z[i] /= Math.sqrt(Math.max(1e-6, 1 - leverage));
             }
         }
@@ -479,24 +526,6 @@ public final class DispersionFit {
             }
         }
         return worst;
-    }
-
-    /** phi(x)^T C phi(x) with phi(x) = (1, x, x^2, ...). */
-    private static double quadraticForm(double[][] c, double x) {
-        int k = c.length;
-        double[] phi = new double[k];
-        double power = 1;
-        for (int j = 0; j < k; j++) {
-            phi[j] = power;
-            power *= x;
-        }
-        double sum = 0;
-        for (int r = 0; r < k; r++) {
-            for (int col = 0; col < k; col++) {
-                sum += phi[r] * c[r][col] * phi[col];
-            }
-        }
-        return sum;
     }
 
     private static void check(double[] pixel, double[] pixelSigma, double[] wavelengthNm, double[] wavelengthSigma) {

@@ -112,7 +112,7 @@ final class EndGroups {
         for (int g = 0; g < k; g++) {
             double p = match.pixel(group[g]);
             double centre = others.wavelengthAt(p);
-            double reach = Math.max(3 * others.wavelengthSigmaAt(p),
+            double reach = Math.max(3 * others.covarianceSigmaAt(p),
                     tolerancePixels * Math.abs(others.dispersionAt(p)));
             if (!(reach > 0) || Double.isInfinite(reach)) {
                 return null;
@@ -275,7 +275,7 @@ final class EndGroups {
         }
         for (int step = 0; step <= 32; step++) {
             double p = lo + (hi - lo) * step / 32;
-            double sigma = solution.wavelengthSigmaAt(p);
+            double sigma = solution.covarianceSigmaAt(p);
             if (!(Math.abs(alt.wavelengthAt(p) - own.wavelengthAt(p)) <= DEPARTURE * sigma)) {
                 return true;
             }

@@ -76,7 +76,7 @@ final class IdentifierRefinement {
             throw new IllegalArgumentException("tolerance must be a positive number of pixels, got " + tolerancePixels);
         }
         int n = peaks.size();
-        CalibratedPeaks calibrated = CalibratedPeaks.of(peaks, solution);
+        CalibratedPeaks calibrated = CalibratedPeaks.of(peaks, solution, solution::covarianceSigmaAt);
         double widest = 0;
         for (double slope : calibrated.dispersionsNmPerPixel()) {
             widest = Math.max(widest, Math.abs(slope));

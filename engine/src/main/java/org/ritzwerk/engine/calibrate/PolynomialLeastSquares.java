@@ -121,4 +121,22 @@ final class PolynomialLeastSquares {
         }
         return v;
     }
+
+    /** phi(x)^T C phi(x) with phi(x) = (1, x, x^2, ...): the variance of the polynomial at x. */
+    static double quadraticForm(double[][] c, double x) {
+        int k = c.length;
+        double[] phi = new double[k];
+        double power = 1;
+        for (int j = 0; j < k; j++) {
+            phi[j] = power;
+            power *= x;
+        }
+        double sum = 0;
+        for (int r = 0; r < k; r++) {
+            for (int col = 0; col < k; col++) {
+                sum += phi[r] * c[r][col] * phi[col];
+            }
+        }
+        return sum;
+    }
 }
