@@ -216,7 +216,11 @@ final class LinesCommand implements Callable<Integer> {
             columns.add(6, Table.Column.number("uncertainty_nm", "u nm", "%.1e"));
         }
         Table output = new Table(columns, spec.commandLine().getOut(), format);
+        int alkaliWithout = 0;
         for (int i = 0; i < lines.size(); i++) {
+            if (lines.source(i).model().equals("quantum-defect") && lines.vacuumWavelengthUncertaintyMetres(i).isEmpty()) {
+                alkaliWithout++;
+            }
             double vacuumMetres = lines.vacuumWavelengthMetres(i);
             double airMetres = AlkaliTables.air(vacuumMetres);
             List<Object> row = new java.util.ArrayList<>(java.util.Arrays.asList(lines.species(i).notation(),
@@ -233,6 +237,11 @@ final class LinesCommand implements Callable<Integer> {
             output.add(row.toArray());
         }
         output.finish();
+        if (alkaliWithout > 0) {
+            spec.commandLine().getErr().println("note: u nm is not estimated ('-', null in JSON) for " + alkaliWithout
+                    + " alkali line(s): a level of each has no stated uncertainty (README, Rydberg states of alkali"
+                    + " atoms)");
+        }
         return 0;
     }
 
