@@ -37,7 +37,8 @@ public record MeasuredLevel(State state, double energyPerCm, String source, doub
         if (source.isBlank()) {
             throw new IllegalArgumentException("measured level " + state + " needs a source");
         }
-        if (!Double.isNaN(uncertaintyPerCm) && !(uncertaintyPerCm >= 0 && uncertaintyPerCm < Double.POSITIVE_INFINITY)) {
+        if (!Double.isNaN(uncertaintyPerCm)
+                && !(uncertaintyPerCm >= 0 && uncertaintyPerCm < Double.POSITIVE_INFINITY)) {
             throw new IllegalArgumentException("uncertainty of measured level " + state + " must be finite and >= 0"
                     + " cm-1 (or NaN for none stated), got " + uncertaintyPerCm);
         }

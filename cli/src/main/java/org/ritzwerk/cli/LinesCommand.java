@@ -218,7 +218,8 @@ final class LinesCommand implements Callable<Integer> {
         Table output = new Table(columns, spec.commandLine().getOut(), format);
         int alkaliWithout = 0;
         for (int i = 0; i < lines.size(); i++) {
-            if (lines.source(i).model().equals("quantum-defect") && lines.vacuumWavelengthUncertaintyMetres(i).isEmpty()) {
+            if (lines.source(i).model().equals("quantum-defect")
+                    && lines.vacuumWavelengthUncertaintyMetres(i).isEmpty()) {
                 alkaliWithout++;
             }
             double vacuumMetres = lines.vacuumWavelengthMetres(i);

@@ -89,7 +89,8 @@ public final class QuantumDefectFiles {
     /** The units {@code limit} and {@code limit-from} may carry. */
     public static final List<String> LIMIT_UNITS = List.of("cm-1", "GHz", "MHz", "kHz");
     private static final Set<String> KNOWN = Set.of("id", "title", "species", "source", "provenance", "version",
-            "limit-per-cm", "limit", "limit-from", "limit-uncertainty", "limit-provenance", "limit-source", "limit-check",
+            "limit-per-cm", "limit", "limit-from", "limit-uncertainty", "limit-provenance", "limit-source",
+            "limit-check",
             "core-dipole-polarizability-au",
             "core-quadrupole-polarizability-au", "core-source", "core-check", "levels", "note");
 

@@ -34,7 +34,8 @@ public record Level(State state, double energyPerCm, double effectiveN, LevelOri
     public Level {
         Objects.requireNonNull(state, "state");
         Objects.requireNonNull(origin, "origin");
-        if (!Double.isNaN(uncertaintyPerCm) && !(uncertaintyPerCm >= 0 && uncertaintyPerCm < Double.POSITIVE_INFINITY)) {
+        if (!Double.isNaN(uncertaintyPerCm)
+                && !(uncertaintyPerCm >= 0 && uncertaintyPerCm < Double.POSITIVE_INFINITY)) {
             throw new IllegalArgumentException("the uncertainty of " + state.notation() + " must be finite and >= 0"
                     + " cm-1 (NaN for not estimated), got " + uncertaintyPerCm);
         }
