@@ -3,6 +3,7 @@ package org.ritzwerk.data;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import org.ritzwerk.atom.Species;
 
 /**
@@ -28,10 +29,14 @@ import org.ritzwerk.atom.Species;
  *                           the set gives them
  * @param levelsId           the id of the set of measured low levels that goes with this one, if
  *                           any; a valid data set id ({@link DataSetInfo#isValidId(String)})
+ * @param limitUncertaintyPerCm the limit's standard uncertainty, cm^-1: finite and not negative, or
+ *                           NaN when none is stated (NaN policy: only here and in
+ *                           {@link Series#uncertainties()} does NaN mean "not stated"; every other
+ *                           NaN is refused)
  */
 public record QuantumDefects(DataSetInfo info, Species species, double limitPerCm, double rydbergPerCm,
-        List<Series> series, Optional<CorePolarizability> corePolarizability, Optional<String> levelsId)
-        implements DataSet {
+        List<Series> series, Optional<CorePolarizability> corePolarizability, Optional<String> levelsId,
+        double limitUncertaintyPerCm) implements DataSet {
 
     /**
      * One series' parameters.
@@ -40,8 +45,31 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
      * @param twoJ         twice j
      * @param coefficients d0, d2, d4, ... (at least d0); finite
      * @param validFromN   the lowest n the parameters are meant for
+     * @param uncertainties the published standard uncertainties of d0, d2, d4, ...: empty when none is
+     *                     stated, else one per coefficient, each finite and not negative or NaN for
+     *                     a coefficient whose uncertainty is not stated
      */
-    public record Series(int l, int twoJ, List<Double> coefficients, int validFromN) {
+    public record Series(int l, int twoJ, List<Double> coefficients, int validFromN, List<Double> uncertainties) {
+
+        /**
+         * A series without stated uncertainties.
+         *
+         * @param l            orbital quantum number
+         * @param twoJ         twice j
+         * @param coefficients d0, d2, d4, ... (at least d0); finite
+         * @param validFromN   the lowest n the parameters are meant for
+         */
+        public Series(int l, int twoJ, List<Double> coefficients, int validFromN) {
+            this(l, twoJ, coefficients, validFromN, List.of());
+        }
+
+        /**
+         * @return whether every coefficient has a stated uncertainty (so that an energy from the
+         *         series can be given one)
+         */
+        public boolean hasAllUncertainties() {
+            return !uncertainties.isEmpty() && uncertainties.stream().noneMatch(u -> Double.isNaN(u));
+        }
 
         /**
          * Validates the parameters.
@@ -50,6 +78,8 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
          * @param twoJ         twice j
          * @param coefficients d0, d2, d4, ... (at least d0); finite
          * @param validFromN   the lowest n the parameters are meant for
+         * @param uncertainties empty, or one standard uncertainty per coefficient (finite, not
+         *                     negative, or NaN where not stated)
          */
         public Series {
             if (l < 0 || twoJ < 0 || Math.abs(twoJ - 2 * l) != 1) {
@@ -62,6 +92,17 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
             }
             if (validFromN < 1) {
                 throw new IllegalArgumentException("validFromN must be >= 1, got " + validFromN);
+            }
+            uncertainties = List.copyOf(uncertainties);
+            if (!uncertainties.isEmpty() && uncertainties.size() != coefficients.size()) {
+                throw new IllegalArgumentException("give one uncertainty per quantum-defect coefficient (or none), got "
+                        + uncertainties.size() + " for " + coefficients.size() + " coefficients");
+            }
+            for (double u : uncertainties) {
+                if (!Double.isNaN(u) && !(u >= 0 && u < Double.POSITIVE_INFINITY)) {
+                    throw new IllegalArgumentException("quantum-defect uncertainties must be finite and >= 0 (NaN for"
+                            + " not stated), got " + uncertainties);
+                }
             }
         }
     }
@@ -78,6 +119,8 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
      *                           the set gives them
      * @param levelsId           the id of the set of measured low levels that goes with this one, if
      *                           any; a valid data set id ({@link DataSetInfo#isValidId(String)})
+     * @param limitUncertaintyPerCm the limit's standard uncertainty, cm^-1 (finite, not negative), or
+     *                           NaN when none is stated
      */
     public QuantumDefects {
         Objects.requireNonNull(info, "info");
@@ -96,6 +139,42 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
             throw new IllegalArgumentException("levels id must be a data set id (1 to 80 lower-case letters, digits, "
                     + "dots and dashes), got '" + levelsId.get() + "'");
         }
+        if (!Double.isNaN(limitUncertaintyPerCm)
+                && !(limitUncertaintyPerCm >= 0 && limitUncertaintyPerCm < Double.POSITIVE_INFINITY)) {
+            throw new IllegalArgumentException("limit uncertainty must be finite and >= 0 cm-1 (NaN for not stated),"
+                    + " got " + limitUncertaintyPerCm);
+        }
+    }
+
+    /**
+     * A set whose limit has no stated uncertainty.
+     *
+     * @param info               what the set is (kind {@link DataKind#QUANTUM_DEFECTS})
+     * @param species            the atom or ion
+     * @param limitPerCm         ionization limit above the ground state, cm^-1; finite, positive
+     * @param rydbergPerCm       the mass-corrected Rydberg constant R_M of the species, cm^-1; positive
+     * @param series             the series, one per l and j
+     * @param corePolarizability the core's dipole and quadrupole polarizabilities, if given
+     * @param levelsId           the id of the set of measured low levels that goes with this one, if any
+     */
+    public QuantumDefects(DataSetInfo info, Species species, double limitPerCm, double rydbergPerCm,
+            List<Series> series, Optional<CorePolarizability> corePolarizability, Optional<String> levelsId) {
+        this(info, species, limitPerCm, rydbergPerCm, series, corePolarizability, levelsId, Double.NaN);
+    }
+
+    /** @return the limit's standard uncertainty in cm^-1, or empty when none is stated */
+    public OptionalDouble statedLimitUncertaintyPerCm() {
+        return Double.isNaN(limitUncertaintyPerCm) ? OptionalDouble.empty()
+                : OptionalDouble.of(limitUncertaintyPerCm);
+    }
+
+    /**
+     * @param uncertainty the limit's standard uncertainty, cm^-1 (finite, not negative), or NaN for none
+     * @return this set with it
+     */
+    public QuantumDefects withLimitUncertaintyPerCm(double uncertainty) {
+        return new QuantumDefects(info, species, limitPerCm, rydbergPerCm, series, corePolarizability, levelsId,
+                uncertainty);
     }
 
     /**
@@ -117,7 +196,8 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
      * @return this set with R_M replaced (e.g. by one computed from another table's atomic mass)
      */
     public QuantumDefects withRydbergPerCm(double rydberg) {
-        return new QuantumDefects(info, species, limitPerCm, rydberg, series, corePolarizability, levelsId);
+        return new QuantumDefects(info, species, limitPerCm, rydberg, series, corePolarizability, levelsId,
+                limitUncertaintyPerCm);
     }
 
     /**
@@ -125,7 +205,8 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
      * @return this set with them
      */
     public QuantumDefects withCorePolarizability(CorePolarizability core) {
-        return new QuantumDefects(info, species, limitPerCm, rydbergPerCm, series, Optional.of(core), levelsId);
+        return new QuantumDefects(info, species, limitPerCm, rydbergPerCm, series, Optional.of(core), levelsId,
+                limitUncertaintyPerCm);
     }
 
     /**
@@ -135,7 +216,7 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
      */
     public QuantumDefects withLevelsId(String id) {
         return new QuantumDefects(info, species, limitPerCm, rydbergPerCm, series, corePolarizability,
-                Optional.of(id));
+                Optional.of(id), limitUncertaintyPerCm);
     }
 
     @Override

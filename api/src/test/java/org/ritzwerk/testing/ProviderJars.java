@@ -132,12 +132,17 @@ public final class ProviderJars {
             for (int k = 0; k < series.coefficients().size(); k++) {
                 src.append(k == 0 ? "" : ", ").append(literal(series.coefficients().get(k)));
             }
-            src.append("), ").append(series.validFromN()).append(")");
+            src.append("), ").append(series.validFromN()).append(", List.of(");
+            for (int k = 0; k < series.uncertainties().size(); k++) {
+                src.append(k == 0 ? "" : ", ").append(literal(series.uncertainties().get(k)));
+            }
+            src.append("))");
         }
         CorePolarizability core = defects.corePolarizability().orElseThrow();
         src.append("),\n        Optional.of(new CorePolarizability(").append(literal(core.dipoleAu())).append(", ")
                 .append(literal(core.quadrupoleAu())).append(", ").append(quote(core.source())).append(")),\n")
-                .append("        Optional.of(").append(quote(levelsId)).append("));\n  }\n}\n");
+                .append("        Optional.of(").append(quote(levelsId)).append("), ")
+                .append(literal(defects.limitUncertaintyPerCm())).append(");\n  }\n}\n");
         return src.toString();
     }
 

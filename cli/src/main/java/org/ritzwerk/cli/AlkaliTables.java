@@ -107,7 +107,9 @@ final class AlkaliTables {
         State lower = line.lowerState(0).orElseThrow();
         double vacuum = line.vacuumWavelengthMetres(0);
         boolean lowerIsGround = lower.equals(atom.groundState());
-        Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequencyHz(0), vacuum * 1e9,
+        double uHz = atom.frequencyUncertaintyHz(lower, upper).orElse(Double.NaN);
+        Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequencyHz(0), uHz,
+            vacuum * 1e9, line.vacuumWavelengthUncertaintyMetres(0).orElse(Double.NaN) * 1e9,
             air(vacuum) * 1e9, line.wavenumberPerCm(0), atom.reducedDipole(upper, lower),
             line.einsteinA(0).getAsDouble(), line.oscillatorStrength(0).getAsDouble(), atom.radiativeLifetime(upper),
             atom.effectiveLifetime(upper, temperature),
@@ -119,7 +121,9 @@ final class AlkaliTables {
                 Table.Column.text("upper", "upper"),
                 Table.Column.text("lower", "lower"),
                 Table.Column.number("frequency_hz", "Hz", "%.9e"),
+                Table.Column.number("uncertainty_hz", "u Hz", "%.2g"),
                 Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.6f"),
+                Table.Column.number("uncertainty_nm", "u nm", "%.1e"),
                 Table.Column.number("air_wavelength_nm", "air nm", "%.6f"),
                 Table.Column.number("wavenumber_per_cm", "cm-1", "%.6f"),
                 Table.Column.number("reduced_dipole_ea0", "<u||d||l> e a0", "%.5g"),
@@ -134,7 +138,7 @@ final class AlkaliTables {
         table.finish();
     }
 
-    /** The ladder table: the two steps' wavelengths. */
+    /** The ladder table: the two steps' wavelengths and frequencies, with their standard uncertainties. */
     static void ladder(AlkaliAtom atom, State[] states, PrintWriter out, Table.Format format) {
         LadderExcitation ladder;
         try {
@@ -149,11 +153,14 @@ final class AlkaliTables {
                 Table.Column.text("to", "to"),
                 Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.6f"),
                 Table.Column.number("air_wavelength_nm", "air nm", "%.6f"),
-                Table.Column.number("frequency_hz", "Hz", "%.9e")), out, format);
+                Table.Column.number("frequency_hz", "Hz", "%.9e"),
+                Table.Column.number("uncertainty_hz", "u Hz", "%.2g")), out, format);
         table.add(atom.species().notation(), "1", states[0].notation(), states[1].notation(),
-                ladder.firstVacuumMetres() * 1e9, air(ladder.firstVacuumMetres()) * 1e9, ladder.firstHz());
+                ladder.firstVacuumMetres() * 1e9, air(ladder.firstVacuumMetres()) * 1e9, ladder.firstHz(),
+                ladder.firstUncertaintyHz());
         table.add(atom.species().notation(), "2", states[1].notation(), states[2].notation(),
-                ladder.secondVacuumMetres() * 1e9, air(ladder.secondVacuumMetres()) * 1e9, ladder.secondHz());
+                ladder.secondVacuumMetres() * 1e9, air(ladder.secondVacuumMetres()) * 1e9, ladder.secondHz(),
+                ladder.secondUncertaintyHz());
         table.finish();
     }
 

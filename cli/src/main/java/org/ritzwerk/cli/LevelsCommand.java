@@ -193,6 +193,10 @@ final class LevelsCommand implements Callable<Integer> {
         LevelSets.noteLevelsWithoutLines(levelSets.levels(), spec.commandLine().getErr());
         Table table = new Table(columns, spec.commandLine().getOut(), format);
         Map<Species, List<String>> unsplit = new java.util.LinkedHashMap<>();
+        // alkali levels whose energy has no estimated uncertainty (shown '-'), to say so once per species
+        java.util.Set<Species> alkaliSpecies = new java.util.HashSet<>();
+        atoms.alkalis().forEach(atom -> alkaliSpecies.add(atom.species()));
+        Map<Species, List<String>> notEstimated = new java.util.LinkedHashMap<>();
         Map<Species, DoubleConsumer> progress = new HashMap<>();
         query.run(sources, (species, fraction) -> progress.computeIfAbsent(species, s -> Progress.on(
                 spec.commandLine().getErr(), "levels: " + s.notation() + (lifetimes ? " lifetimes" : "")))
@@ -205,6 +209,9 @@ final class LevelsCommand implements Callable<Integer> {
                             boxed(part.energyUncertaintyPerCm(i)), part.model(i),
                             boxed(part.lifetimeSeconds(i)), boxed(part.effectiveLifetimeSeconds(i))};
                         table.add(Arrays.copyOf(row, columns.size()));
+                        if (part.energyUncertaintyPerCm(i).isEmpty() && alkaliSpecies.contains(part.species(i))) {
+                            notEstimated.computeIfAbsent(part.species(i), k -> new ArrayList<>()).add(part.label(i));
+                        }
                         if (hyperfine && part.twoF(i).isEmpty() && atoms.ions().isEmpty()) {
                             unsplit.computeIfAbsent(part.species(i), k -> new ArrayList<>()).add(part.label(i));
                         }
@@ -217,6 +224,11 @@ final class LevelsCommand implements Callable<Integer> {
                     }
                 });
         table.finish();
+        notEstimated.forEach((species, labels) -> spec.commandLine().getErr().println("note: " + species.notation()
+                + ": u cm-1 is not estimated ('-', null in JSON) for " + labels.size() + " level(s) (first: "
+                + labels.get(0) + "): no uncertainty is stated for their series' quantum defects or the ionisation"
+                + " limit, or they are core-polarization, hydrogenic or hyperfine F levels; README, Rydberg states of"
+                + " alkali atoms, says which levels have one"));
         unsplit.forEach((species, labels) -> spec.commandLine().getErr().println("note: " + species.notation()
                 + ": no hyperfine constants for " + labels.size() + " level(s), listed unsplit (F -): "
                 + String.join(", ", labels.subList(0, Math.min(8, labels.size()))) + (labels.size() > 8 ? ", ..." : "")

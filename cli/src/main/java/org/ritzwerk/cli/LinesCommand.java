@@ -194,8 +194,9 @@ final class LinesCommand implements Callable<Integer> {
         LineSet lines = LineSet.concat(List.of(query.withMultiplets(multiplets).run(ionSources, progress),
                 query.withMaxL(lMax).run(alkaliSources, progress), query.run(listSources)))
                 .sortedByFallingFrequency();
-        // Lines of level lists carry the Ritz wavelength's standard uncertainty: a column for it then.
-        boolean ritz = !levelSets.levels().isEmpty();
+        // Lines of level lists carry the Ritz wavelength's standard uncertainty, alkali lines the one of their
+        // levels (where estimated): a column for it then.
+        boolean uncertainties = !levelSets.levels().isEmpty() || !atoms.alkalis().isEmpty();
         List<Table.Column> columns = new java.util.ArrayList<>(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("upper", "upper"),
@@ -211,11 +212,16 @@ final class LinesCommand implements Callable<Integer> {
                 Table.Column.number("oscillator_strength", "f", "%.4e"),
                 Table.Column.number("line_strength_au", "S (e a0)^2", "%.4e"),
                 Table.Column.text("model", "model")));
-        if (ritz) {
+        if (uncertainties) {
             columns.add(6, Table.Column.number("uncertainty_nm", "u nm", "%.1e"));
         }
         Table output = new Table(columns, spec.commandLine().getOut(), format);
+        int alkaliWithout = 0;
         for (int i = 0; i < lines.size(); i++) {
+            if (lines.source(i).model().equals("quantum-defect")
+                    && lines.vacuumWavelengthUncertaintyMetres(i).isEmpty()) {
+                alkaliWithout++;
+            }
             double vacuumMetres = lines.vacuumWavelengthMetres(i);
             double airMetres = AlkaliTables.air(vacuumMetres);
             List<Object> row = new java.util.ArrayList<>(java.util.Arrays.asList(lines.species(i).notation(),
@@ -224,7 +230,7 @@ final class LinesCommand implements Callable<Integer> {
                     lines.wavenumberPerCm(i), lines.frequencyHz(i), lines.einsteinA(i).orElse(Double.NaN),
                     lines.oscillatorStrength(i).orElse(Double.NaN), lines.lineStrengthAtomicUnits(i).orElse(Double.NaN),
                     lines.source(i).model()));
-            if (ritz) {
+            if (uncertainties) {
                 // the vacuum value's uncertainty; in air it is smaller by the index (1.0003), below the digits shown
                 row.add(6, lines.vacuumWavelengthUncertaintyMetres(i).isPresent()
                         ? lines.vacuumWavelengthUncertaintyMetres(i).getAsDouble() * 1e9 : null);
@@ -232,6 +238,11 @@ final class LinesCommand implements Callable<Integer> {
             output.add(row.toArray());
         }
         output.finish();
+        if (alkaliWithout > 0) {
+            spec.commandLine().getErr().println("note: u nm is not estimated ('-', null in JSON) for " + alkaliWithout
+                    + " alkali line(s): a level of each has no stated uncertainty (README, Rydberg states of alkali"
+                    + " atoms)");
+        }
         return 0;
     }
 

@@ -93,7 +93,8 @@ class AlkaliCommandsTest {
                 "csv");
         assertEquals(0, run.code(), run.err());
         String[] rows = run.out().split("\n");
-        assertEquals("species,step,from,to,vacuum_wavelength_nm,air_wavelength_nm,frequency_hz", rows[0]);
+        assertEquals("species,step,from,to,vacuum_wavelength_nm,air_wavelength_nm,frequency_hz,uncertainty_hz",
+                rows[0]);
         // Rb D2, 780.241 nm in vacuum (D. A. Steck, Rubidium 87 D Line Data, rev. 2.1.5 (2015):
         // 780.241 209 686 nm; digits recalled, from memory; checked: c divided by the D2 frequency
         // 384 230.484 468 5 GHz of Ye et al., Opt. Lett. 21, 1280 (1996), gives the same digits).

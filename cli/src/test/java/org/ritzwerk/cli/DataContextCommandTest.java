@@ -162,13 +162,14 @@ class DataContextCommandTest {
         LevelList.Builder copy = LevelList.builder(table.info(), table.unit(), table.note());
         for (int i = 0; i < table.size(); i++) {
             double energy = table.energy(i);
+            double uncertainty = table.uncertainty(i).orElse(Double.NaN);
             for (MeasuredLevel m : measured) {
                 if (m.state().notation().equals(table.label(i)) && m.source().startsWith("d-lines: ")) {
                     energy = m.energyPerCm();
+                    uncertainty = m.uncertaintyPerCm(); // the D-line measurement's, as the built-in atom has it
                 }
             }
-            copy.add(table.species(i), table.label(i), energy, table.uncertainty(i).orElse(Double.NaN), table.twoJ(i),
-                    table.rowNote(i));
+            copy.add(table.species(i), table.label(i), energy, uncertainty, table.twoJ(i), table.rowNote(i));
         }
         LevelList levels = copy.build();
         String source = ProviderJars.wholeAlkaliSource("com.example.rydberg.WholeRubidium", defects, levels, "example-qd-rb-87",

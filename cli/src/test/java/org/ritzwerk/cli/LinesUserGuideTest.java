@@ -65,7 +65,8 @@ class LinesUserGuideTest {
                 "800 nm air", "--n-max", "5", "--l-max", "1", "--medium", "air", "--format", "csv").out());
         assertEquals(2, rbRows.size());
         assertEquals(d2AirNm, Double.parseDouble(rbRows.get(0)[4]), 0.0);
-        assertEquals(dLines.einsteinA(1).getAsDouble(), Double.parseDouble(rbRows.get(1)[8]), 0.0);
+        // alkali lines have the uncertainty_nm column (index 6) before the frequency and A
+        assertEquals(dLines.einsteinA(1).getAsDouble(), Double.parseDouble(rbRows.get(1)[9]), 0.0);
     }
 
     /** The data rows of a CSV table without quoted commas. */

@@ -296,7 +296,7 @@ public final class AlkaliHyperfine {
             State p = State.of(n, 1, d.twoJUpper());
             MeasuredLevel level = new MeasuredLevel(p, d.wavenumberPerCm(), "d-lines: " + d.line() + " centroid "
                     + d.frequencyText() + "(" + d.uncertaintyText() + ") " + d.unit() + ", " + d.source() + " ("
-                    + d.provenance().id() + ")");
+                    + d.provenance().id() + ")", d.uncertaintyHertz() / (PhysicalConstants.C * 100));
             int at = -1;
             for (int i = 0; i < out.size(); i++) {
                 if (out.get(i).state().equals(p)) {

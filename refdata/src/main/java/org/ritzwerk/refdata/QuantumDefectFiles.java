@@ -34,6 +34,7 @@ import org.ritzwerk.data.QuantumDefects;
  * # limit-per-cm: 33690.804799                    (or the next two)
  * # limit: 1010029.1646 GHz                       (the limit in its publication's unit and digits)
  * # limit-from: -4271.676631815 MHz              (optional: the level it is measured from)
+ * # limit-uncertainty: 0.0003                     (optional: the limit's standard uncertainty, in its unit)
  * # limit-provenance: from-memory
  * # limit-source: ...
  * # limit-check: ...                              (optional: how the limit was checked)
@@ -45,6 +46,13 @@ import org.ritzwerk.data.QuantumDefects;
  * # note: ...                                     (optional)
  * l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,checked
  * 0,1/2,3.1311807,0.1787,0,0,0,10,from-memory,Mack et al. ...,check 1: ...
+ * </pre>
+ * or, stating the coefficients' standard uncertainties ({@link #COLUMNS_WITH_UNCERTAINTIES}; an
+ * empty field is "not stated", and a level computed from a series with any coefficient's
+ * uncertainty not stated, or from a file without {@code limit-uncertainty}, gets none):
+ * <pre>
+ * l,j,d0,d2,d4,d6,d8,u-d0,u-d2,u-d4,u-d6,u-d8,uncertainty-provenance,valid-from-n,provenance,source,checked
+ * 0,1/2,3.1311807,0.1787,0,0,0,0.0000008,0.0002,,,,from-memory,10,from-memory,Mack et al. ...,check 1: ...
  * </pre>
  * The ionisation limit, above the hyperfine centroid of the ground level, is given either as
  * {@code limit-per-cm} (cm^-1) or as {@code limit}: a number and its unit ({@code cm-1}, {@code GHz},
@@ -66,13 +74,23 @@ public final class QuantumDefectFiles {
     /** The columns, in order. */
     public static final List<String> COLUMNS =
             List.of("l", "j", "d0", "d2", "d4", "d6", "d8", "valid-from-n", "provenance", "source", "checked");
+    /**
+     * The columns of a file that states the coefficients' standard uncertainties, in order: as
+     * {@link #COLUMNS} with {@code u-d0} to {@code u-d8} (empty where not stated) and
+     * {@code uncertainty-provenance} (published or from-memory; empty when the row states none) after
+     * {@code d8}.
+     */
+    public static final List<String> COLUMNS_WITH_UNCERTAINTIES = List.of("l", "j", "d0", "d2", "d4", "d6", "d8",
+            "u-d0", "u-d2", "u-d4", "u-d6", "u-d8", "uncertainty-provenance", "valid-from-n", "provenance", "source",
+            "checked");
 
     private static final List<String> REQUIRED = List.of("id", "title", "species", "source", "provenance", "version",
             "limit-provenance", "limit-source");
     /** The units {@code limit} and {@code limit-from} may carry. */
     public static final List<String> LIMIT_UNITS = List.of("cm-1", "GHz", "MHz", "kHz");
     private static final Set<String> KNOWN = Set.of("id", "title", "species", "source", "provenance", "version",
-            "limit-per-cm", "limit", "limit-from", "limit-provenance", "limit-source", "limit-check",
+            "limit-per-cm", "limit", "limit-from", "limit-uncertainty", "limit-provenance", "limit-source",
+            "limit-check",
             "core-dipole-polarizability-au",
             "core-quadrupole-polarizability-au", "core-source", "core-check", "levels", "note");
 
@@ -127,6 +145,7 @@ public final class QuantumDefectFiles {
         Set<String> seen = new HashSet<>();
         boolean formatSeen = false;
         boolean columnsSeen = false;
+        boolean withUncertainties = false;
         int number = 0;
         try (BufferedReader reader = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
             for (String line = reader.readLine(); line != null; line = reader.readLine()) {
@@ -161,14 +180,16 @@ public final class QuantumDefectFiles {
                 }
                 if (!columnsSeen) {
                     columnsSeen = true;
-                    if (!line.strip().equals(String.join(",", COLUMNS))) {
+                    withUncertainties = line.strip().equals(String.join(",", COLUMNS_WITH_UNCERTAINTIES));
+                    if (!withUncertainties && !line.strip().equals(String.join(",", COLUMNS))) {
                         problems.add(new DataProblem(source, number, 1, "qd.columns", "columns must be "
-                                + String.join(",", COLUMNS), line));
+                                + String.join(",", COLUMNS) + " or " + String.join(",", COLUMNS_WITH_UNCERTAINTIES),
+                                line));
                         break;
                     }
                     continue;
                 }
-                row(line, number, source, series, seen, problems);
+                row(line, number, source, series, seen, problems, withUncertainties);
             }
         } catch (IOException e) {
             throw new DataFileException(DataFileException.UNREADABLE, source, List.of(), e.getMessage());
@@ -241,6 +262,9 @@ public final class QuantumDefectFiles {
         header(out, info, "provenance", kind);
         header(out, info, "version", info.version());
         header(out, info, "limit-per-cm", Double.toString(defects.limitPerCm()));
+        if (defects.statedLimitUncertaintyPerCm().isPresent()) {
+            header(out, info, "limit-uncertainty", Double.toString(defects.limitUncertaintyPerCm()));
+        }
         header(out, info, "limit-provenance", kind);
         header(out, info, "limit-source", "not kept in the data set; see source");
         if (defects.corePolarizability().isPresent()) {
@@ -258,7 +282,8 @@ public final class QuantumDefectFiles {
                 .append(" the source and check of each series nor the limit's own source\n");
         out.append("# (the original file has them). R_M is computed on reading from the atomic mass in the")
                 .append(" nuclear data in use\n");
-        out.append(String.join(",", COLUMNS)).append('\n');
+        boolean stated = defects.series().stream().anyMatch(x -> !x.uncertainties().isEmpty());
+        out.append(String.join(",", stated ? COLUMNS_WITH_UNCERTAINTIES : COLUMNS)).append('\n');
         for (QuantumDefects.Series series : defects.series()) {
             List<Double> d = series.coefficients();
             if (d.size() > 5 || (d.size() > 1 && d.get(d.size() - 1) == 0)) {
@@ -268,6 +293,14 @@ public final class QuantumDefectFiles {
             out.append(series.l()).append(',').append(series.twoJ()).append("/2");
             for (int i = 0; i < 5; i++) {
                 out.append(',').append(Double.toString(i < d.size() ? d.get(i) : 0.0));
+            }
+            if (stated) {
+                List<Double> u = series.uncertainties();
+                for (int i = 0; i < 5; i++) {
+                    boolean given = i < u.size() && !Double.isNaN(u.get(i));
+                    out.append(',').append(given ? Double.toString(u.get(i)) : "");
+                }
+                out.append(',').append(u.isEmpty() ? "" : kind);
             }
             out.append(',').append(series.validFromN()).append(',').append(kind)
                     .append(",see the header source,not kept in the data set\n");
@@ -289,12 +322,21 @@ public final class QuantumDefectFiles {
     }
 
     private static void row(String line, int number, String source, List<QuantumDefects.Series> series,
-            Set<String> seen, List<DataProblem> problems) {
-        String[] f = line.split(",", COLUMNS.size());
-        if (f.length < COLUMNS.size()) {
-            problems.add(new DataProblem(source, number, 0, "qd.short-row", "a series row needs " + COLUMNS.size()
-                    + " fields, got " + f.length, line));
+            Set<String> seen, List<DataProblem> problems, boolean withUncertainties) {
+        List<String> columns = withUncertainties ? COLUMNS_WITH_UNCERTAINTIES : COLUMNS;
+        String[] all = line.split(",", columns.size());
+        if (all.length < columns.size()) {
+            problems.add(new DataProblem(source, number, 0, "qd.short-row", "a series row needs " + columns.size()
+                    + " fields, got " + all.length, line));
             return;
+        }
+        List<Double> uncertainties = new ArrayList<>();
+        String[] f = all;
+        if (withUncertainties) {
+            uncertainties = uncertainties(all, line, number, source, problems);
+            f = new String[COLUMNS.size()];
+            System.arraycopy(all, 0, f, 0, 7);
+            System.arraycopy(all, 13, f, 7, COLUMNS.size() - 7);
         }
         int before = problems.size();
         int l = integer(f[0], "l", line, number, source, problems);
@@ -329,7 +371,19 @@ public final class QuantumDefectFiles {
             return;
         }
         while (coefficients.size() > 1 && coefficients.get(coefficients.size() - 1) == 0) {
+            if (!uncertainties.isEmpty() && !Double.isNaN(uncertainties.get(coefficients.size() - 1))) {
+                problems.add(new DataProblem(source, number, 0, "qd.bad-uncertainty", "u-"
+                        + COLUMNS.get(coefficients.size() + 1) + " is given for a coefficient that is 0 (not in the"
+                        + " series)", line));
+                return;
+            }
             coefficients.remove(coefficients.size() - 1);
+        }
+        if (!uncertainties.isEmpty()) {
+            uncertainties = uncertainties.subList(0, coefficients.size());
+            if (uncertainties.stream().allMatch(u -> Double.isNaN(u))) {
+                uncertainties = List.of();
+            }
         }
         if (!seen.add(l + "," + twoJ)) {
             problems.add(new DataProblem(source, number, 0, "qd.duplicate-series", "series l = " + l + ", j = "
@@ -337,10 +391,54 @@ public final class QuantumDefectFiles {
             return;
         }
         try {
-            series.add(new QuantumDefects.Series(l, twoJ, coefficients, validFrom));
+            series.add(new QuantumDefects.Series(l, twoJ, coefficients, validFrom, uncertainties));
         } catch (IllegalArgumentException e) {
             problems.add(new DataProblem(source, number, 0, "qd.bad-series", e.getMessage(), line));
         }
+    }
+
+    /**
+     * The fields u-d0 to u-d8 (NaN where empty) and the check of uncertainty-provenance: needed when
+     * a u field is given, empty otherwise.
+     */
+    private static List<Double> uncertainties(String[] f, String line, int number, String source,
+            List<DataProblem> problems) {
+        List<Double> out = new ArrayList<>();
+        boolean any = false;
+        for (int i = 7; i <= 11; i++) {
+            String text = f[i].strip();
+            if (text.isEmpty()) {
+                out.add(Double.NaN);
+                continue;
+            }
+            any = true;
+            try {
+                double value = Double.parseDouble(text);
+                if (!Double.isFinite(value) || value < 0) {
+                    throw new NumberFormatException();
+                }
+                out.add(value);
+            } catch (NumberFormatException e) {
+                problems.add(new DataProblem(source, number, 0, "qd.bad-uncertainty", COLUMNS_WITH_UNCERTAINTIES.get(i)
+                        + " must be empty (not stated) or a finite number >= 0, got '" + f[i] + "'", line));
+                out.add(Double.NaN);
+            }
+        }
+        String kind = f[12].strip();
+        if (any && kind.isEmpty()) {
+            problems.add(new DataProblem(source, number, 0, "qd.bad-uncertainty", "uncertainty-provenance is empty;"
+                    + " a row that states uncertainties says how they were obtained (published or from-memory)", line));
+        } else if (!any && !kind.isEmpty()) {
+            problems.add(new DataProblem(source, number, 0, "qd.bad-uncertainty", "uncertainty-provenance '" + kind
+                    + "' is given but no u-d0 to u-d8", line));
+        } else if (any) {
+            try {
+                Provenance.Kind.fromId(kind);
+            } catch (IllegalArgumentException e) {
+                problems.add(new DataProblem(source, number, 0, "qd.bad-provenance", e.getMessage(), line));
+            }
+        }
+        return out;
     }
 
     private static int integer(String text, String field, String line, int number, String source,
@@ -373,6 +471,23 @@ public final class QuantumDefectFiles {
                 : wavenumber(header, headerLine, "limit", source, problems)
                         + (header.containsKey("limit-from")
                                 ? wavenumber(header, headerLine, "limit-from", source, problems) : 0.0);
+        double limitUncertainty = Double.NaN;
+        if (header.containsKey("limit-uncertainty")) {
+            String unit = header.containsKey("limit") ? header.get("limit").strip().replaceAll(".*\\s", "") : "cm-1";
+            double u = number(header, headerLine, "limit-uncertainty", source, problems);
+            if (u < 0) {
+                problems.add(new DataProblem(source, headerLine.get("limit-uncertainty"), 0, "qd.bad-limit",
+                        "limit-uncertainty must be >= 0 (in the limit's unit), got " + u,
+                        header.get("limit-uncertainty")));
+            } else if (!Double.isNaN(u) && LIMIT_UNITS.contains(unit)) {
+                limitUncertainty = switch (unit) {
+                    case "cm-1" -> u;
+                    case "GHz" -> u * 1e9 / (PhysicalConstants.C * 100);
+                    case "MHz" -> u * 1e6 / (PhysicalConstants.C * 100);
+                    default -> u * 1e3 / (PhysicalConstants.C * 100);
+                };
+            }
+        }
         Provenance.Kind provenanceKind = kind(header, headerLine, "provenance", source, problems);
         Provenance.Kind limitKind = kind(header, headerLine, "limit-provenance", source, problems);
         CorePolarizability core = null;
@@ -410,7 +525,8 @@ public final class QuantumDefectFiles {
             DataSetInfo info = new DataSetInfo(header.get("id"), DataKind.QUANTUM_DEFECTS, header.get("title"),
                     header.get("version"), new Provenance(provenanceKind, header.get("source")), List.of(species));
             QuantumDefects defects = new QuantumDefects(info, species, limit, rydberg, series,
-                    Optional.ofNullable(core), levels.isEmpty() ? Optional.empty() : Optional.of(levels));
+                    Optional.ofNullable(core), levels.isEmpty() ? Optional.empty() : Optional.of(levels),
+                    limitUncertainty);
             return new Content(defects, new Provenance(limitKind, header.get("limit-source")));
         } catch (IllegalArgumentException e) {
             problems.add(new DataProblem(source, headerLine.getOrDefault("id", 1), 0, "qd.bad-set", e.getMessage(), ""));

@@ -274,6 +274,8 @@ class DataContextTest {
             assertEquals(Optional.of("example-levels-rb-87"), rb.quantumDefects().levelsId());
             assertEquals(mine.quantumDefects().series(), rb.quantumDefects().series());
             assertEquals(mine.quantumDefects().limitPerCm(), rb.quantumDefects().limitPerCm(), 0.0);
+            assertEquals(mine.quantumDefects().limitUncertaintyPerCm(), rb.quantumDefects().limitUncertaintyPerCm(),
+                    0.0);
             assertEquals(mine.rydbergPerCm(), rb.rydbergPerCm(), 0.0);
             assertEquals(mine.corePolarizability(), rb.corePolarizability());
             assertEquals(levels.size(), rb.measuredLevels().size());

@@ -251,7 +251,7 @@ public final class LevelQuery {
                     List<HyperfineLevel> fLevels = hyperfine ? split.apply(state) : List.of();
                     if (fLevels.isEmpty()) {
                         part.add(atom.species(), state.notation(), n, l, twoJ, none, twoJ + 1, level.energyPerCm(),
-                                Double.NaN, origin, lifetime, withBlackBody);
+                                level.uncertaintyPerCm(), origin, lifetime, withBlackBody);
                     }
                     for (HyperfineLevel f : fLevels) {
                         part.add(atom.species(), state.notation(), n, l, twoJ, f.twoF(), f.twoF() + 1,

@@ -173,7 +173,9 @@ public final class LevelSet {
 
     /**
      * @param i a level, 0 to size() - 1
-     * @return the standard uncertainty of the energy in cm^-1, when the source gives one
+     * @return the standard uncertainty of the energy in cm^-1, when the source gives one (a level list's
+     *         own; an alkali level's as its atom states it, {@code Level.energyUncertaintyPerCm()}, and none
+     *         for its hyperfine F levels; none for one-electron ions)
      */
     public OptionalDouble energyUncertaintyPerCm(int i) {
         return Double.isNaN(energySigma[i]) ? OptionalDouble.empty() : OptionalDouble.of(energySigma[i]);

@@ -259,7 +259,9 @@ public final class LineSet {
     /**
      * The lines of an alkali atom as {@link AlkaliLines} gave them: named by the letters of l
      * ({@code p-s}), labelled in spectroscopic notation, with n l j, frequency (the wavelength is
-     * {@code c / nu}), A, f, S, weights 2j + 1 and the upper energy above the ground level.
+     * {@code c / nu}), A, f, S, weights 2j + 1, the upper energy above the ground level and, where both
+     * levels have one, the vacuum wavelength's standard uncertainty {@code c u(nu) / nu^2}
+     * ({@link AlkaliAtom#frequencyUncertaintyHz}).
      *
      * @param atom  the atom
      * @param lines its lines
@@ -282,6 +284,9 @@ public final class LineSet {
                     .lineStrength(line.lineStrength())
                     .weights(u.twoJ() + 1, l.twoJ() + 1)
                     .upperEnergy(Math.max(0, atom.energyJoules(u)));
+            if (line.vacuumWavelengthUncertaintyMetres().isPresent()) {
+                b.uncertainty(line.vacuumWavelengthUncertaintyMetres().getAsDouble());
+            }
         }
         return b.build();
     }

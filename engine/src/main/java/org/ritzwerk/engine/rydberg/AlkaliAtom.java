@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
@@ -76,6 +77,14 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * data context's atoms (refdata) carry the built-in table, so that there the engine uses a
  * published element wherever one exists, and first-p lifetimes of Na, K, Rb and Cs come within
  * 1 % of published measurements. An atom made by {@link #of} has none.
+ *
+ * <p><b>Uncertainties</b> ({@link Level#energyUncertaintyPerCm()}, {@link #frequencyUncertaintyHz}): a
+ * measured level carries the standard uncertainty given with it ({@link MeasuredLevel#uncertaintyPerCm()});
+ * a level of the Rydberg-Ritz formula the first-order propagation of the stated uncertainties of the
+ * limit and of every coefficient of its series ({@link #rydbergRitzEnergyUncertainty}), none when any
+ * of them is not stated; core-polarization and hydrogenic levels have none (not estimated). A
+ * transition combines its two levels' as independent (see {@link #frequencyUncertaintyHz}).
+ * Dipole elements, rates and lifetimes carry no uncertainty.
  *
  * <p><b>Accuracy</b> (see the tests): levels as good as the measured values and the fits (the
  * fits meet the measured levels within 0.1 cm^-1 from valid-from-n on); Rydberg-Rydberg dipole
@@ -502,7 +511,8 @@ public final class AlkaliAtom {
         double limit = defects.limitPerCm();
         MeasuredLevel m = measured.get(state);
         if (m != null) {
-            return new Level(state, m.energyPerCm(), Math.sqrt(r / (limit - m.energyPerCm())), LevelOrigin.MEASURED);
+            return new Level(state, m.energyPerCm(), Math.sqrt(r / (limit - m.energyPerCm())), LevelOrigin.MEASURED,
+                    m.uncertaintyPerCm());
         }
         int lowest = lowestN(state.l());
         if (state.n() < lowest) {
@@ -518,7 +528,10 @@ public final class AlkaliAtom {
                         + s.validFromN() + " and no measured energy was given for this level; not extrapolated");
             }
             double e = fitEnergy(s, state.n());
-            return new Level(state, e, state.n() - defect(s.coefficients(), state.n()), LevelOrigin.QUANTUM_DEFECT_FIT);
+            double u = s.hasAllUncertainties() ? rydbergRitzEnergyUncertainty(defects.limitUncertaintyPerCm(), r,
+                    s.coefficients(), s.uncertainties(), state.n()) : Double.NaN;
+            return new Level(state, e, state.n() - defect(s.coefficients(), state.n()), LevelOrigin.QUANTUM_DEFECT_FIT,
+                    u);
         }
         if (state.l() <= maxSeriesL) {
             throw new RydbergException(RydbergException.NO_LEVEL, species() + " " + state.notation() + ": "
@@ -548,6 +561,53 @@ public final class AlkaliAtom {
     public static double rydbergRitzEnergy(double limitPerCm, double rydbergPerCm, List<Double> coefficients, int n) {
         double nStar = n - rydbergRitzDefect(coefficients, n);
         return limitPerCm - rydbergPerCm / (nStar * nStar);
+    }
+
+    /**
+     * The standard uncertainty of {@link #rydbergRitzEnergy} from the stated uncertainties of the limit
+     * and of the coefficients, to first order (GUM, JCGM 100:2008, eq. 10; common practice), every input
+     * taken as uncorrelated with every other:
+     * {@code u(E)^2 = u(E_limit)^2 + (2 R_M / n*^3)^2 sum_k (d delta / d c_k)^2 u(c_k)^2}, since
+     * {@code dE / d delta = -2 R_M / (n - delta)^3}; {@code d delta / d d0 = 1 + sum_(k>=1) 2 k c_k x^(k-1)
+     * / (n - d0)^3} and {@code d delta / d c_k = x^k} for the others, {@code x = 1 / (n - d0)^2}. The
+     * correlations of a published fit (limit with d0, d0 with d2) are not known from the papers'
+     * abstracts; a least-squares fit usually correlates them so that they partly cancel in E, so
+     * leaving them out tends to overstate u(E). R_M is taken as exact (its relative uncertainty,
+     * below 1e-9, moves nothing at these digits), and so is the formula: its own truncation error,
+     * largest near the series' validity edge, is not included.
+     *
+     * @param limitUncertaintyPerCm the limit's standard uncertainty, cm^-1; NaN gives NaN
+     * @param rydbergPerCm          the species' mass-corrected Rydberg constant R_M, cm^-1
+     * @param coefficients          d0, d2, d4, ... (at least d0)
+     * @param uncertainties         their standard uncertainties, one per coefficient; a NaN gives NaN
+     * @param n                     principal quantum number, above {@code d0}
+     * @return u(E) in cm^-1, not negative, or NaN when an input's uncertainty is not stated
+     */
+    public static double rydbergRitzEnergyUncertainty(double limitUncertaintyPerCm, double rydbergPerCm,
+            List<Double> coefficients, List<Double> uncertainties, int n) {
+        if (uncertainties.size() != coefficients.size()) {
+            throw new IllegalArgumentException("one uncertainty per coefficient is needed, got " + uncertainties.size()
+                    + " for " + coefficients.size());
+        }
+        double d0 = coefficients.get(0);
+        double x = 1 / ((n - d0) * (n - d0));
+        double dxdd0 = 2 / ((n - d0) * (n - d0) * (n - d0));
+        double nStar = n - defect(coefficients, n);
+        double dEdDelta = 2 * rydbergPerCm / (nStar * nStar * nStar);
+        double ddelta0 = 1;
+        double power = 1;
+        for (int k = 1; k < coefficients.size(); k++) {
+            ddelta0 += k * coefficients.get(k) * power * dxdd0;
+            power *= x;
+        }
+        double variance = limitUncertaintyPerCm * limitUncertaintyPerCm;
+        power = 1;
+        for (int k = 0; k < coefficients.size(); k++) {
+            double partial = (k == 0 ? ddelta0 : power) * dEdDelta * uncertainties.get(k);
+            variance += partial * partial;
+            power *= x;
+        }
+        return Math.sqrt(variance);
     }
 
     /**
@@ -637,6 +697,32 @@ public final class AlkaliAtom {
     }
 
     /**
+     * The standard uncertainty of {@link #frequencyHz}: {@code c sqrt(u(E_from)^2 + u(E_to)^2)}, the two
+     * levels taken as independent. Every energy is measured from the same ground level, whose
+     * energy is 0 by definition (exact), so that shared zero adds nothing. Two levels from quantum-
+     * defect formulas share the limit (and, in one series, the defects), which cancel in part in
+     * their difference: for such a pair (microwave lines between Rydberg states) this overstates
+     * the uncertainty, most when the limit's uncertainty dominates; it never understates it through
+     * a correlation, since every shared input moves both levels the same way.
+     *
+     * @param from the first state
+     * @param to   the second state
+     * @return the uncertainty in Hz, or empty when either level's is not estimated
+     * @throws RydbergException when the model has no energy for either
+     */
+    public OptionalDouble frequencyUncertaintyHz(State from, State to) {
+        return combinedHz(level(from), level(to));
+    }
+
+    /** {@code c sqrt(u_a^2 + u_b^2)} in Hz, or empty when either is not estimated. */
+    static OptionalDouble combinedHz(Level a, Level b) {
+        if (a.energyUncertaintyPerCm().isEmpty() || b.energyUncertaintyPerCm().isEmpty()) {
+            return OptionalDouble.empty();
+        }
+        return OptionalDouble.of(Math.hypot(a.uncertaintyPerCm(), b.uncertaintyPerCm()) * 100 * C);
+    }
+
+    /**
      * @param lower        the start, e.g. the ground state
      * @param intermediate the intermediate state, above {@code lower}
      * @param upper        the Rydberg state, above {@code intermediate}
@@ -660,7 +746,9 @@ public final class AlkaliAtom {
                     + "energies: %s -> %s -> %s has steps of %.6f GHz and %.6f GHz", lower.notation(),
                     intermediate.notation(), upper.notation(), first * 1e-9, second * 1e-9));
         }
-        return new LadderExcitation(lower, intermediate, upper, first, second);
+        return new LadderExcitation(lower, intermediate, upper, first, second,
+                frequencyUncertaintyHz(lower, intermediate).orElse(Double.NaN),
+                frequencyUncertaintyHz(intermediate, upper).orElse(Double.NaN));
     }
 
     /**

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Objects;
+import java.util.OptionalDouble;
 import java.util.function.DoubleConsumer;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
@@ -38,9 +39,43 @@ public final class AlkaliLines {
      * @param einsteinA          the spontaneous emission rate upper -&gt; lower, s^-1
      * @param oscillatorStrength the absorption oscillator strength f (lower -&gt; upper)
      * @param lineStrength       the line strength S, (e a0)^2
+     * @param frequencyUncertaintyHz the frequency's standard uncertainty, Hz, from its two levels'
+     *                           ({@link AlkaliAtom#frequencyUncertaintyHz}), or NaN when not estimated;
+     *                           A, f and S carry none
      */
     public record Line(AlkaliAtom atom, State upper, State lower, double frequency, double einsteinA,
-            double oscillatorStrength, double lineStrength) {
+            double oscillatorStrength, double lineStrength, double frequencyUncertaintyHz) {
+
+        /**
+         * A line without a frequency uncertainty.
+         *
+         * @param atom               the atom
+         * @param upper              the upper state
+         * @param lower              the lower state
+         * @param frequency          the line's frequency, Hz
+         * @param einsteinA          the spontaneous emission rate upper -&gt; lower, s^-1
+         * @param oscillatorStrength the absorption oscillator strength f (lower -&gt; upper)
+         * @param lineStrength       the line strength S, (e a0)^2
+         */
+        public Line(AlkaliAtom atom, State upper, State lower, double frequency, double einsteinA,
+                double oscillatorStrength, double lineStrength) {
+            this(atom, upper, lower, frequency, einsteinA, oscillatorStrength, lineStrength, Double.NaN);
+        }
+
+        /** @return the frequency's standard uncertainty, Hz, or empty when not estimated */
+        public OptionalDouble frequencyUncertainty() {
+            return Double.isNaN(frequencyUncertaintyHz) ? OptionalDouble.empty()
+                    : OptionalDouble.of(frequencyUncertaintyHz);
+        }
+
+        /**
+         * @return the vacuum wavelength's standard uncertainty, metres ({@code c u(nu) / nu^2}), or empty
+         *         when not estimated
+         */
+        public OptionalDouble vacuumWavelengthUncertaintyMetres() {
+            return Double.isNaN(frequencyUncertaintyHz) ? OptionalDouble.empty()
+                    : OptionalDouble.of(PhysicalConstants.C * frequencyUncertaintyHz / (frequency * frequency));
+        }
 
         /** @return the line's vacuum wavelength, metres */
         public double vacuumWavelengthMetres() {
@@ -156,6 +191,7 @@ public final class AlkaliLines {
         double strength = reduced * reduced;
         double deltaHartree = hz / PhysicalConstants.C / 100 / HARTREE_PER_CM;
         double f = 2.0 / 3.0 * deltaHartree * strength / (lower.twoJ() + 1);
-        return new Line(atom, upper, lower, hz, atom.einsteinA(upper, lower), f, strength);
+        return new Line(atom, upper, lower, hz, atom.einsteinA(upper, lower), f, strength,
+                atom.frequencyUncertaintyHz(lower, upper).orElse(Double.NaN));
     }
 }

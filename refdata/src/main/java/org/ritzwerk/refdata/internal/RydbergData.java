@@ -297,7 +297,7 @@ public final class RydbergData {
                 throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, levels.info().id() + ": level "
                         + "label '" + levels.label(i) + "': " + e.getMessage());
             }
-            out.add(new MeasuredLevel(state, levels.energy(i), source));
+            out.add(new MeasuredLevel(state, levels.energy(i), source, levels.uncertainty(i).orElse(Double.NaN)));
         }
         return out;
     }

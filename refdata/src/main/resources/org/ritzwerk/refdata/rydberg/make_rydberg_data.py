@@ -41,6 +41,13 @@ Where the numbers come from, and how sure we are of them.
     et al. (1994) and, for Rb, against the measured g-series quantum defect (check 3).
   * Model potentials: Marinescu et al. (1994), Table I, from memory; checked by check 4.
 
+Uncertainties.  Each quantum-defect row states its coefficients' standard uncertainties (u-d0 to
+u-d8; SERIES_UNCERTAINTIES, recalled from the series' paper, marked from-memory) where recalled, and
+each header the limit's (limit-uncertainty; LIMIT_UNCERTAINTIES); where none is stated, the file says
+nothing and the engine gives the levels none.  Check U writes what they propagate to.  The measured
+levels' column uncertainty is half a unit in the ASD's last digit (plus, for a shared isotope, the
+estimated neglected isotope shift).
+
 Check 1 (chooses valid-from-n).  For each series the Rydberg-Ritz energy
     E(n) = limit - R_M / (n - delta(n))^2,  delta = d0 + d2/(n-d0)^2 + d4/(n-d0)^4 + ...
 is compared with every measured level below.  valid-from-n is the lowest n from which on every
@@ -171,6 +178,33 @@ LI_SERIES = [
     (3, 5, [-0.000077, 0.021856, -0.4211, 2.3891], LN_1983),
     (3, 7, [-0.000077, 0.021856, -0.4211, 2.3891], LN_1983),
 ]
+
+# Standard uncertainties of the coefficients, per atom and series: ([u(d0), u(d2), ...], provenance).
+# Only where the series' paper gives them: recalled with the digits above from the same papers (the
+# abstracts read here print none of them), so every row is from-memory, with no independent check of
+# these digits (fit-residuals.txt, check U, shows what they propagate to).  A series not listed, or with fewer uncertainties than coefficients, states none for the
+# rest, and levels computed from it get no uncertainty (the engine never fills one in).  Not stated:
+# K, Na, Li (Lorenzen & Niemax 1983 and Goy et al. 1986: not recalled), Cs d3/2 (Lorenzen & Niemax
+# 1984), Cs f (Weber & Sansonetti 1987, Goy et al. 1982).
+LI_2003_U = {(0, 1): [0.0000010, 0.0006], (1, 1): [0.0000010, 0.0006], (1, 3): [0.0000010, 0.0007],
+             (2, 3): [0.00000040, 0.00026], (2, 5): [0.00000030, 0.00018]}
+HAN_2006_U = {(3, 5): [0.0000009, 0.009], (3, 7): [0.0000007, 0.007]}
+MACK_2011_U = {(0, 1): [0.0000008, 0.0002], (2, 3): [0.0000011, 0.0004], (2, 5): [0.0000011, 0.0004]}
+DEIGLMAYR_2016_U = {(0, 1): [0.0000004, 0.0005, 0.10, 7.0, 150.0], (1, 1): [0.0000003, 0.00016],
+                    (1, 3): [0.0000002, 0.00014], (2, 5): [0.0000006, 0.00015, 0.012, 0.3]}
+SERIES_UNCERTAINTIES = {
+    "rb-85": LI_2003_U | HAN_2006_U,
+    "rb-87": {(1, 1): LI_2003_U[(1, 1)], (1, 3): LI_2003_U[(1, 3)]} | MACK_2011_U | HAN_2006_U,
+    "cs-133": DEIGLMAYR_2016_U,
+}
+UNCERTAINTY_PROVENANCE = "from-memory"
+
+# Ionisation limits' standard uncertainties, in the unit of PUBLISHED_LIMITS (header 'limit-uncertainty'),
+# as each publication prints it: Cs (Deiglmayr et al. 2016) and K-39 (Peper et al. 2019, 22 systematic
+# and 3 statistic in the last digits, combined in quadrature: 22) read in the abstracts; Rb-87 (Mack
+# et al. 2011, 0.3 MHz) recalled with the limit.  None for Li-7, Na, Rb-85 (not recalled) and for the
+# isotopes whose limit is scaled from a partner (its neglected specific mass shift is only estimated).
+LIMIT_UNCERTAINTIES = {"cs-133": "0.0000014", "k-39": "0.0000022", "rb-87": "0.0003"}
 
 # Ionisation limits above the ground level's hyperfine centroid, cm^-1:
 # (value, provenance, source, second value for the check: (cm^-1, its source) or None).
@@ -1035,13 +1069,25 @@ def main():
                "energies are above the ground level (hyperfine centroid); R_M is not stored: the provider "
                "computes it from the atomic mass in nuclear/isotopes.csv; valid-from-n is the lowest n from "
                "which the formula agrees with the measured levels within %.2f cm-1; below it the engine uses "
-               "levels-%s.csv%s" % (TOLERANCE_PER_CM, atom_id, shared_note(atom_id)),
-               "l,j,d0,d2,d4,d6,d8,valid-from-n,provenance,source,checked"]
+               "levels-%s.csv; u-d0 to u-d8 are the coefficients' standard uncertainties as recalled from the series' "
+               "paper (column uncertainty-provenance; empty: not stated, and a level of that series then has no "
+               "uncertainty), limit-uncertainty the limit's in its unit; no floor is added for the formula's own "
+               "residuals near valid-from-n (check U in fit-residuals.txt: one to three measured levels per series "
+               "do not show how they fall with n), so a level's uncertainty covers the published parameters "
+               "only%s" % (TOLERANCE_PER_CM, atom_id, shared_note(atom_id)),
+               "l,j,d0,d2,d4,d6,d8,u-d0,u-d2,u-d4,u-d6,u-d8,uncertainty-provenance,valid-from-n,provenance,source,"
+               "checked"]
+        stated = SERIES_UNCERTAINTIES.get(atom_id, {})
         for l, two_j, coefficients, paper in series:
             cs = list(coefficients) + [0.0] * (5 - len(coefficients))
-            out.append("%d,%s,%s,%d,from-memory,%s,%s" % (
-                l, j_text(two_j), ",".join(fmt(c) for c in cs), valid_from[(l, two_j)],
-                paper.replace(",", ";"), row_check[(l, two_j)].replace(",", ";")))
+            us = stated.get((l, two_j), [])
+            u_text = ",".join(fmt_u(us[i]) if i < len(us) else "" for i in range(5))
+            out.append("%d,%s,%s,%s,%s,%d,from-memory,%s,%s" % (
+                l, j_text(two_j), ",".join(fmt(c) for c in cs), u_text, UNCERTAINTY_PROVENANCE if us else "",
+                valid_from[(l, two_j)], paper.replace(",", ";"), row_check[(l, two_j)].replace(",", ";")))
+            if us:
+                check_u(report, atom_id, l, two_j, coefficients, us, valid_from[(l, two_j)], limit, r_m,
+                        level_check, problems)
         with open("quantum-defects-%s.csv" % atom_id, "w") as f:
             f.write("\n".join(out) + "\n")
         # levels file
@@ -1149,7 +1195,51 @@ def limit_lines(atom_id, limit):
     if atom_id not in PUBLISHED_LIMITS:
         return ["# limit-per-cm: %s" % fmt(limit)]
     text, origin = PUBLISHED_LIMITS[atom_id]
-    return ["# limit: %s" % text] + (["# limit-from: %s" % origin] if origin else [])
+    return (["# limit: %s" % text] + (["# limit-from: %s" % origin] if origin else [])
+            + (["# limit-uncertainty: %s" % LIMIT_UNCERTAINTIES[atom_id]] if atom_id in LIMIT_UNCERTAINTIES else []))
+
+
+def fmt_u(u):
+    """An uncertainty as written in the files: plain decimals, no exponent."""
+    text = ("%.10f" % u).rstrip("0").rstrip(".")
+    assert float(text) == u, u
+    return text
+
+
+def limit_uncertainty_per_cm(atom_id):
+    """The limit's standard uncertainty in cm^-1, converted as QuantumDefectFiles converts it, or None."""
+    if atom_id not in LIMIT_UNCERTAINTIES:
+        return None
+    unit = PUBLISHED_LIMITS[atom_id][0].split()[1]
+    return float(LIMIT_UNCERTAINTIES[atom_id]) * {"cm-1": 1.0, "GHz": 1e9 / (C * 100), "MHz": 1e6 / (C * 100)}[unit]
+
+
+def ritz_uncertainty(u_limit, r_m, coefficients, us, n):
+    """First-order standard uncertainty of ritz(): every input uncorrelated (as AlkaliAtom computes it)."""
+    d0 = coefficients[0]
+    x = 1.0 / (n - d0) ** 2
+    n_star = n - defect(coefficients, n)
+    de = 2 * r_m / n_star ** 3
+    partials = [1 + sum(2 * k * c * x ** (k - 1) / (n - d0) ** 3 for k, c in enumerate(coefficients) if k >= 1)]
+    partials += [x ** k for k in range(1, len(coefficients))]
+    return math.sqrt(u_limit ** 2 + sum((p * de * u) ** 2 for p, u in zip(partials, us)))
+
+
+def check_u(report, atom_id, l, two_j, coefficients, us, valid_from, limit, r_m, level_check, problems):
+    """Check U: the energy uncertainty the stated uncertainties propagate to (ritz_uncertainty), beside
+    the formula's residual against the measured levels at the edge of its validity (check 1), which it
+    does not include.  The recalled uncertainties themselves have no independent check here."""
+    u_limit = limit_uncertainty_per_cm(atom_id)
+    if len(us) < len(coefficients) or u_limit is None:
+        report.append("# check U %s %s%s: no level uncertainty (%s not stated)" % (
+            atom_id, L_LETTERS[l], j_text(two_j), "the limit's" if u_limit is None else "a coefficient's"))
+        return
+    edge = [abs(level_check[k][0]) for k in level_check if k[1] == l and k[2] == two_j and k[0] >= valid_from]
+    report.append("# check U %s %s%s: u(E) at n = %d, 30, 60, 100: %.2e, %.2e, %.2e, %.2e cm-1 "
+                  "(the limit's alone %.1e); the formula's largest check-1 residual at n >= %d: %s (not included)" % (
+                      atom_id, L_LETTERS[l], j_text(two_j), valid_from,
+                      *(ritz_uncertainty(u_limit, r_m, coefficients, us, n) for n in (valid_from, 30, 60, 100)),
+                      u_limit, valid_from, "%.4f cm-1" % max(edge) if edge else "no measured level"))
 
 
 def shared_note(atom_id):

@@ -1,0 +1,86 @@
+package org.ritzwerk.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
+import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.refdata.DataContext;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+/**
+ * The alkali uncertainty columns of {@code levels} and {@code lines}: uncertainty_per_cm,
+ * uncertainty_hz and uncertainty_nm, filled from the library, null (never 0 or NaN) where not
+ * estimated, with a note on standard error.
+ */
+class AlkaliUncertaintyCommandTest {
+
+    private static final JsonMapper JSON = JsonMapper.builder().build();
+    private static final DataContext DATA = DataContext.builtIn();
+
+    @Test
+    void ladderStepsCarryTheirFrequencyUncertainty() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,60d5/2", "--format",
+                "json");
+        assertEquals(0, run.code(), run.err());
+        AlkaliAtom rb = DATA.alkaliAtom(Species.parse("Rb-87 I"));
+        String[] rows = run.out().strip().split("\\R");
+        JsonNode first = JSON.readTree(rows[0]);
+        JsonNode second = JSON.readTree(rows[1]);
+        // D2: the 6.2 kHz of the measured centroid (d-lines.csv: Ye et al. 1996, from memory)
+        assertEquals(6200.0, first.get("uncertainty_hz").asDouble(), 1e-6, rows[0]);
+        assertEquals(rb.frequencyUncertaintyHz(State.parse("5p3/2"), State.parse("60d5/2")).getAsDouble(),
+                second.get("uncertainty_hz").asDouble(), 0.0, rows[1]);
+        CliTest.Run text = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,60d5/2");
+        assertTrue(text.out().lines().findFirst().orElseThrow().endsWith("u Hz"), text.out());
+    }
+
+    @Test
+    void transitionShowsFrequencyAndWavelengthUncertainty() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Cs-133 I", "--transition", "6s1/2 -> 40p3/2", "--format",
+                "csv");
+        assertEquals(0, run.code(), run.err());
+        String[] lines = run.out().strip().split("\\R");
+        java.util.List<String> header = java.util.List.of(lines[0].split(","));
+        String[] row = lines[1].split(",");
+        AlkaliAtom cs = DATA.alkaliAtom(Species.parse("Cs-133 I"));
+        double u = cs.frequencyUncertaintyHz(State.parse("6s1/2"), State.parse("40p3/2")).getAsDouble();
+        double nu = cs.frequencyHz(State.parse("6s1/2"), State.parse("40p3/2"));
+        assertEquals(u, Double.parseDouble(row[header.indexOf("uncertainty_hz")]), 0.0);
+        assertEquals(299_792_458.0 * u / (nu * nu) * 1e9, Double.parseDouble(row[header.indexOf("uncertainty_nm")]),
+                1e-12 * 299_792_458.0 * u / (nu * nu) * 1e9);
+    }
+
+    @Test
+    void notEstimatedIsNullAndSaid() {
+        // Na: no uncertainty stated for the quantum defects of Lorenzen & Niemax 1983
+        CliTest.Run run = CliTest.run("levels", "--species", "Na-23 I", "--n-max", "30", "--l-max", "0", "--format",
+                "json");
+        assertEquals(0, run.code(), run.err());
+        boolean sawNull = false;
+        boolean sawValue = false;
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode node = JSON.readTree(line);
+            JsonNode u = node.get("uncertainty_per_cm");
+            assertTrue(u != null, line);
+            if (u.isNull()) {
+                sawNull = true;
+                assertEquals("quantum-defect-fit", node.get("model").asString(), line);
+            } else {
+                sawValue = true;
+                assertTrue(u.asDouble() >= 0 && Double.isFinite(u.asDouble()), line);
+            }
+        }
+        assertTrue(sawNull && sawValue, run.out());
+        assertTrue(run.err().contains("u cm-1 is not estimated"), run.err());
+        CliTest.Run lines = CliTest.run("lines", "--species", "Na-23 I", "--from", "300nm", "--to", "420nm",
+                "--n-max", "30", "--l-max", "1", "--format", "csv");
+        assertEquals(0, lines.code(), lines.err());
+        assertTrue(lines.out().lines().findFirst().orElseThrow().contains("uncertainty_nm"), lines.out());
+        assertTrue(lines.err().contains("u nm is not estimated"), lines.err());
+        assertTrue(!lines.out().contains("NaN"), lines.out());
+    }
+}
