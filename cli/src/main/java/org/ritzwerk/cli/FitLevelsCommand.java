@@ -128,6 +128,9 @@ final class FitLevelsCommand implements Callable<Integer> {
         } finally {
             running.close();
         }
+        for (String note : problem.lookAlikeLabelNotes()) {
+            spec.commandLine().getErr().println("note: " + note);
+        }
         if (levelsOut != null) {
             String levels;
             try {

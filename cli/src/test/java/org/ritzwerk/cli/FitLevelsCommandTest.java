@@ -161,6 +161,26 @@ class FitLevelsCommandTest {
     }
 
     /**
+     * A review's labels.csv: half the lines to one level spelt its label with a lower-case term
+     * letter; the fit took it for a 15th level beside the real one, with exit 0 and no word. It is
+     * still fitted as the labels say (case can tell a term from a configuration), with a note.
+     */
+    @Test
+    void labelsThatDifferOnlyInCaseOrSpacingAreNoted(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("labels.csv");
+        Files.writeString(file, "# ritzwerk-measured-lines 1\n# position-unit: cm-1\n"
+                + "position,uncertainty,upper,lower\n4857.4567,0.0010,1s2p 1P1,1s2s 1S0\n"
+                + "19931.9248,0.0010,1s3p 1P1,1s2s 1S0\n15074.4681,0.0015,1s3p 1P1,1s2p 1p1\n"
+                + "15074.4680,0.0015,1s3p  1P1,1s2p 1P1\n");
+        CliTest.Run run = CliTest.run("fit-levels", file.toString(), "--reference", "1s2s 1S0");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.err().contains("note: the level labels '1s2p 1P1' (2 lines: " + file + ":4, " + file
+                + ":7) and '1s2p 1p1' (1 line: " + file + ":6) differ only in letter case or white space, and are "
+                + "fitted as 2 levels; if they name one level, give them one label"), run.err());
+        assertTrue(run.out().startsWith("4 levels"), run.out());
+    }
+
+    /**
      * The reviewer's revonly.csv (invented He I-like wavenumbers): a level set by one line entered reversed came
      * out below the ground level with exit 0; now refused naming the level and the line. Its rev.csv (the
      * reversal contradicted by other lines) is still refused as before, and the JSON extreme.json (u = 1e-300)

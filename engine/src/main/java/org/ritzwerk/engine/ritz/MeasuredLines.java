@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
 import java.util.regex.Pattern;
@@ -79,6 +80,45 @@ public final class MeasuredLines {
     /** @return the level labels, the reference first, then in order of first appearance */
     public List<String> levels() {
         return levels;
+    }
+
+    /**
+     * Labels that look like one level typed two ways: equal when letter case and white space are
+     * ignored (for example {@code 4s4p 3P1} and {@code 4s4p 3p1}). Each is fitted as a level of its
+     * own, as the labels say (case can matter: {@code 3P} and {@code 3p} may name a term and a
+     * configuration), so a typo would silently weaken the real level and add a phantom one beside
+     * it; the notes name them with the lines that use each.
+     *
+     * @return one note per group of such labels, in order of first appearance; empty when none
+     */
+    public List<String> lookAlikeLabelNotes() {
+        Map<String, List<Integer>> groups = new LinkedHashMap<>();
+        for (int i = 0; i < levels.size(); i++) {
+            String key = WHITE_SPACE.matcher(levels.get(i)).replaceAll("").toLowerCase(Locale.ROOT);
+            groups.computeIfAbsent(key, k -> new ArrayList<>()).add(i);
+        }
+        List<String> notes = new ArrayList<>();
+        for (List<Integer> group : groups.values()) {
+            if (group.size() < 2) {
+                continue;
+            }
+            List<String> parts = new ArrayList<>();
+            for (int level : group) {
+                List<String> lines = new ArrayList<>();
+                for (int k = 0; k < size(); k++) {
+                    if (upper[k] == level || lower[k] == level) {
+                        lines.add(name[k]);
+                    }
+                }
+                parts.add("'" + levels.get(level) + "' (" + lines.size() + (lines.size() == 1 ? " line: " : " lines: ")
+                        + String.join(", ", lines.subList(0, Math.min(3, lines.size())))
+                        + (lines.size() > 3 ? ", ..." : "") + ")");
+            }
+            notes.add("the level labels " + String.join(" and ", parts) + " differ only in letter case or white"
+                    + " space, and are fitted as " + group.size() + " levels; if they name one level, give them one"
+                    + " label");
+        }
+        return notes;
     }
 
     /** @return the number of lines */

@@ -92,6 +92,24 @@ class LevelOptimizerTest {
     }
 
     @Test
+    void labelsThatLookAlikeAreNotedAndStillFittedApart() {
+        MeasuredLines lines = MeasuredLines.builder("a 1S0", 0).add("b 3P1", "a 1S0", 100, 0.01, "one")
+                .add("c 3S1", "b 3p1", 50, 0.01, "two").add("c 3S1", "a 1S0", 150, 0.01, "three")
+                .add("d", "B 3P1", 20, 0.01, "four").add("d", "a 1S0", 120, 0.01, "five").build();
+        assertEquals(List.of("a 1S0", "b 3P1", "c 3S1", "b 3p1", "d", "B 3P1"), lines.levels());
+        assertEquals(List.of("the level labels 'b 3P1' (1 line: one) and 'b 3p1' (1 line: two) and 'B 3P1' (1 line:"
+                + " four) differ only in letter case or white space, and are fitted as 3 levels; if they name one"
+                + " level, give them one label"), lines.lookAlikeLabelNotes());
+        MeasuredLines distinct = MeasuredLines.builder("a", 0).add("b", "a", 1, 0.1, "x").add("b c", "a", 2, 0.1, "y")
+                .build();
+        assertTrue(distinct.lookAlikeLabelNotes().isEmpty());
+        assertEquals(List.of("the level labels 'bc' (1 line: x) and 'b c' (1 line: y) differ only in letter case or"
+                + " white space, and are fitted as 2 levels; if they name one level, give them one label"),
+                MeasuredLines.builder("a", 0).add("bc", "a", 1, 0.1, "x").add("b c", "a", 2, 0.1, "y").build()
+                        .lookAlikeLabelNotes());
+    }
+
+    @Test
     void aMisassignedLineIsFlagged() {
         MeasuredLines.Builder b = noisy(new Random(7), TRUE);
         // a line of L6 - L3 written down as L7 - L3: it lies 6666.8 cm^-1 away from where L7 - L3 is
