@@ -10,7 +10,10 @@ delta = d0 + d2 / (n - d0)^2 (Gallagher, Rydberg Atoms (1994), eq. 16.19), and t
 u(E)^2 = u(limit)^2 + sum_k (dE/dc_k)^2 u(c_k)^2 (GUM, JCGM 100:2008, eq. 10, inputs uncorrelated),
 with every partial derivative taken NUMERICALLY by mpmath.diff at 50 digits (not the closed form the
 engine uses).  A transition's uncertainty is sqrt(u_upper^2 + u_lower^2) (independent levels; the
-ground level is the exact zero of the energy scale).
+ground level is the exact zero of the energy scale), except between two levels of the formula (a
+microwave line between Rydberg states), whose shared inputs (the limit; in one series the defects) are
+propagated together: u^2 = sum_p (d(E_upper - E_lower)/dp)^2 u(p)^2 over the limit and every
+coefficient of both series, again by mpmath.diff of the difference itself (GUM, eq. 10).
 
 Numbers, as the data files hold them (their sources named there):
   Rb-87 limit 1 010 029.1646(3) GHz from 5S1/2 F = 1, F = 1 at -4 271.676 631 815 MHz from the
@@ -72,6 +75,33 @@ for n in (20, 30, 60, 100):
 # ladder's second step 5p3/2 -> 60d5/2: both levels' uncertainties combined
 e, u = level(RB_LIMIT, RB_U_LIMIT, RB_RM, RB_D52[0], RB_D52[1], 60)
 rows.append(("Rb-87 I", "5p3/2", "60d5/2", e - RB_D2[0], mpmath.sqrt(u ** 2 + RB_D2[1] ** 2)))
+# microwave lines between two formula levels: the difference propagated from the shared inputs
+RB_PARAMS = [RB_LIMIT] + RB_S[0] + RB_D52[0]
+RB_U_PARAMS = [RB_U_LIMIT] + RB_S[1] + RB_D52[1]
+
+
+def rb_formula(params, label):
+    limit, s0, s2, d0, d2 = params
+    n, series = label
+    return energy(limit, RB_RM, s0, s2, n) if series == "s" else energy(limit, RB_RM, d0, d2, n)
+
+
+def microwave(lower, upper):
+    diff = lambda p: rb_formula(p, upper) - rb_formula(p, lower)
+    variance = 0
+    for i in range(len(RB_PARAMS)):
+        def moved(x, i=i):
+            p = list(RB_PARAMS)
+            p[i] = x
+            return diff(p)
+        variance += (mpmath.diff(moved, RB_PARAMS[i]) * RB_U_PARAMS[i]) ** 2
+    return diff(RB_PARAMS), mpmath.sqrt(variance)
+
+
+for lower, upper in (((60, "s"), (61, "s")), ((60, "s"), (59, "d")), ((40, "d"), (41, "d"))):
+    e, u = microwave(lower, upper)
+    rows.append(("Rb-87 I", "%d%s" % (lower[0], "s1/2" if lower[1] == "s" else "d5/2"),
+                 "%d%s" % (upper[0], "s1/2" if upper[1] == "s" else "d5/2"), e, u))
 for n in (30, 60):
     e, u = level(CS_LIMIT, CS_U_LIMIT, CS_RM, CS_P32[0], CS_P32[1], n)
     rows.append(("Cs-133 I", "6s1/2", "%dp3/2" % n, e, u))
