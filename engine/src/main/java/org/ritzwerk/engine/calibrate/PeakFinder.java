@@ -68,6 +68,22 @@ import java.util.List;
  * above the clamp (see {@code Baseline}), and their F is at least 1. {@link Peaks#countsPerPhoton()},
  * {@link Peaks#countedPhotons()} and {@link Peaks#clampLevel()} report what was assumed.
  *
+ * <p><b>The gain h.</b> Given ({@link #withGain}, from the detector's data sheet or a
+ * photon-transfer measurement), it is used as given. Otherwise the common step above, when it is
+ * not 1. Otherwise (counts on no common step, as from a camera of 3.7 counts per photo-electron,
+ * or on a step of 1) it is estimated from the bright lines' own fit residuals (see
+ * {@code GainEstimate}: where the line's counts dominate a pixel's variance, the squared residual
+ * over the counts estimates h): the peaks are found and fitted with h = 1, the estimate made, and
+ * when it is clearly above 1 (beyond the chi-square quantile at 3 standard deviations, so gain-1
+ * exposures keep h = 1 and their results) found and fitted again with it, the estimate then made
+ * once more from those fits and a third pass made when it moved by more than its own standard
+ * deviation. An estimate below 1 is never used (it would narrow the uncertainties), nor one from
+ * fewer than 5 bright, well-fitted, unsaturated fits: h is then 1, and {@link Peaks#gainNote()}
+ * says why. {@link Peaks#gainSource()} and {@link Peaks#gainStatement()} report which it was. A
+ * read noise given ({@link #withReadNoise}, in counts) is a floor under the measured background
+ * noise sigma_bg(i), which stays where larger: it holds the baseline's own photon noise, and the
+ * baseline may hold a bias offset that is no photons, so the gain times the baseline is not added.
+ *
  * <p><b>Poor fits.</b> In both modes, a fit whose chi-square (over F) exceeds the 99th percentile
  * of the chi-square distribution (Wilson-Hilferty approximation) has its peaks' covariance
  * scaled by its own reduced chi-square instead, and its peaks flagged {@link PeakFlag#POOR_FIT}:
