@@ -17,7 +17,13 @@ package org.ritzwerk.engine.calibrate;
  * scatter about g m where that is larger) and the fits' scatter about the common value (a
  * sandwich estimate over independent fits, which holds the correlation of one fit's residuals).
  * The estimate carries its degrees of freedom k, the sum of 1 - h over its pixels: a narrow line
- * fitted with three parameters leaves its few bright pixels one or two.
+ * fitted with three parameters leaves its few bright pixels one or two. A profile that is not
+ * quite the fitted Gaussian (or a blend that passed) leaves residuals in proportion to the counts,
+ * whose squares grow as m^2: e is therefore also fitted as g m + c m^2, and a c beyond
+ * {@value #SIGNIFICANCE} of its standard deviations marks the estimate as the profile's
+ * ({@link #profile()}), never used. Bright lines of a seeded lamp sweep whose counts are whole
+ * photo-electrons had been taken to gains of 1.4 to 17 by the quantile rule alone (27 of the 400
+ * exposures of refdata's lamp sweep); with the rules of {@link #exceedsOne} none is.
  *
  * <p><b>Which pixels and fits.</b> Pixels dominated by the line (g m at least b^2 and m at least
  * {@value #LEAST_ELECTRONS} photo-electrons) with a leverage below {@value #MAX_LEVERAGE}; fits
@@ -35,8 +41,10 @@ package org.ritzwerk.engine.calibrate;
  * @param fits    how many bright, well-fitted, unsaturated fits it came from (or, with no
  *                estimate, were found)
  * @param freedom its degrees of freedom k, NaN when there is no estimate
+ * @param profile whether the residuals' squares grow faster than the counts (as m^2, see above):
+ *                the excess is then the profile's, and the estimate is not used
  */
-record GainEstimate(double value, double sigma, int fits, double freedom) {
+record GainEstimate(double value, double sigma, int fits, double freedom, boolean profile) {
 
     /** Fewest bright, well-fitted fits from which the gain is estimated. */
     static final int MIN_FITS = 5;
@@ -58,7 +66,7 @@ record GainEstimate(double value, double sigma, int fits, double freedom) {
     private static final double Z999 = 3.090232306167813;
 
     /** No estimate was made. */
-    static final GainEstimate NONE = new GainEstimate(Double.NaN, Double.NaN, 0, Double.NaN);
+    static final GainEstimate NONE = new GainEstimate(Double.NaN, Double.NaN, 0, Double.NaN, false);
 
     /** @return whether there is an estimate */
     boolean isAvailable() {
@@ -68,14 +76,17 @@ record GainEstimate(double value, double sigma, int fits, double freedom) {
     /**
      * Whether the estimate shows a gain above 1: it exceeds the quantile of chi-square over k at
      * {@value #SIGNIFICANCE} standard normal deviates (Wilson-Hilferty), where an estimate from
-     * gain-1 counts falls with probability 0.00135. An estimate below 1 is never used: it would
-     * narrow the uncertainties on the residuals' word alone (a gain given does).
+     * gain-1 counts falls with probability 0.00135; it exceeds 1 by {@value #SIGNIFICANCE} of its
+     * standard deviations (which hold the fits' scatter about it: fits that disagree, as lines
+     * with a profile or blend the fit misses do, widen it); and its residuals do not grow faster
+     * than the counts ({@link #profile()}). An estimate below 1 is never used: it would narrow the
+     * uncertainties on the residuals' word alone (a gain given does).
      *
      * @return whether to use the estimate
      */
     boolean exceedsOne() {
-        return isAvailable() && value > PeakFinder.reducedChiSquareQuantile(SIGNIFICANCE,
-                (int) Math.max(1, Math.round(freedom)));
+        return isAvailable() && !profile && value > PeakFinder.reducedChiSquareQuantile(SIGNIFICANCE,
+                (int) Math.max(1, Math.round(freedom))) && value - 1 > SIGNIFICANCE * sigma;
     }
 
     /**
@@ -180,29 +191,48 @@ record GainEstimate(double value, double sigma, int fits, double freedom) {
             }
         }
         int count = 0;
+        double num = 0;
         double den = 0;
         double scatter = 0;
         int points = 0;
         double between = 0;
         double freedom = 0;
+        double cube = 0;
+        double fourth = 0;
+        double squareE = 0;
         for (int f = 0; f < fits; f++) {
             if (perFit[f] != null) {
                 count++;
+                num += perFit[f][0];
                 den += perFit[f][1];
                 scatter += perFit[f][2];
                 points += (int) perFit[f][3];
                 freedom += perFit[f][4];
+                cube += perFit[f][5];
+                fourth += perFit[f][6];
+                squareE += perFit[f][7];
                 double d = perFit[f][0] - g * perFit[f][1];
                 between += d * d;
             }
         }
         if (count < MIN_FITS || !(den > 0)) {
-            return new GainEstimate(Double.NaN, Double.NaN, count, Double.NaN);
+            return new GainEstimate(Double.NaN, Double.NaN, count, Double.NaN, false);
         }
         double overdispersion = points > 1 ? Math.max(1, scatter / (points - 1)) : 1;
         double model = overdispersion / den;
         double sandwich = count / (count - 1.0) * between / (den * den);
-        return new GainEstimate(g, Math.sqrt(Math.max(model, sandwich)), count, freedom);
+        double sigma = Math.sqrt(Math.max(model, sandwich));
+        // A profile that is not quite the fitted Gaussian (or a blend that passed) leaves residuals
+        // in proportion to the line's counts, so their squares grow as m^2 where the photon noise
+        // grows as m: fitted as e = g m + c m^2, a c beyond SIGNIFICANCE of its standard
+        // deviations says the excess is the profile's, and the estimate is not to be used.
+        double det = den * fourth - cube * cube;
+        boolean profile = false;
+        if (det > 0) {
+            double c = (den * squareE - cube * num) / det;
+            profile = c > SIGNIFICANCE * Math.sqrt(overdispersion * den / det);
+        }
+        return new GainEstimate(g, sigma, count, freedom, profile);
     }
 
     /** A pixel's variance under gain g: background plus the line's photon noise, floored as in the fits. */
@@ -212,8 +242,8 @@ record GainEstimate(double value, double sigma, int fits, double freedom) {
 
     /**
      * One fit's weighted sums over its pixels dominated by the line under gain {@code select}, with
-     * weights under gain g: {sum w m e, sum w m^2, sum w (e - g m)^2, pixels, sum (1 - h)},
-     * w = 1 / (2 V^2); null when it has no such pixel.
+     * weights under gain g: {sum w m e, sum w m^2, sum w (e - g m)^2, pixels, sum (1 - h),
+     * sum w m^3, sum w m^4, sum w m^2 e}, w = 1 / (2 V^2); null when it has no such pixel.
      */
     private static double[] sums(double[][] px, double g, double select, boolean counted) {
         double num = 0;
@@ -221,6 +251,9 @@ record GainEstimate(double value, double sigma, int fits, double freedom) {
         double scatter = 0;
         int used = 0;
         double freedom = 0;
+        double cube = 0;
+        double fourth = 0;
+        double squareE = 0;
         for (int i = 0; i < px[0].length; i++) {
             double m = px[0][i];
             double h = px[2][i];
@@ -236,7 +269,10 @@ record GainEstimate(double value, double sigma, int fits, double freedom) {
             scatter += w * (e - g * m) * (e - g * m);
             used++;
             freedom += 1 - h;
+            cube += w * m * m * m;
+            fourth += w * m * m * m * m;
+            squareE += w * m * m * e;
         }
-        return used == 0 ? null : new double[] {num, den, scatter, used, freedom};
+        return used == 0 ? null : new double[] {num, den, scatter, used, freedom, cube, fourth, squareE};
     }
 }

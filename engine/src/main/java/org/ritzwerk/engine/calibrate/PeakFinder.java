@@ -414,7 +414,7 @@ public final class PeakFinder {
         // The gain: given; or the counts' common step when it is not 1 (whole photo-electrons times
         // a gain: a Poisson variance of that step times their counts); or, for modelled variances,
         // estimated from the bright lines' residuals, 1 when too few lines allow it or when the
-        // estimate does not differ from 1 by more than GAIN_SIGNIFICANCE of its standard deviations.
+        // estimate is not clearly above 1 (GainEstimate.exceedsOne).
         double stepGain = counted || step > 1 ? step : 1;
         if (!Double.isNaN(gain) || stepGain != 1 || sigma != null) {
             double used = Double.isNaN(gain) ? stepGain : gain;
@@ -437,7 +437,7 @@ public final class PeakFinder {
                 true);
         Run last = second;
         GainEstimate again = second.estimate();
-        if (again.isAvailable() && Math.abs(again.value() - estimated.value()) > again.sigma()) {
+        if (again.exceedsOne() && Math.abs(again.value() - estimated.value()) > again.sigma()) {
             last = run(counts, sigma, saturated, noise, counted, again.value(), clamped, baseline, line, smooth, false);
             estimated = again;
         }

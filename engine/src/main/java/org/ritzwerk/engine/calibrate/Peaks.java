@@ -367,6 +367,12 @@ public final class Peaks {
                         + " from %d bright lines' fit residuals)", countsPerPhoton, gainEstimate.sigma(),
                         gainEstimate.fits()) + read;
             default:
+                if (gainEstimate.isAvailable() && gainEstimate.profile()) {
+                    return String.format(java.util.Locale.ROOT, "gain 1 count per photo-electron (estimated %.3g +-"
+                            + " %.2g from %d bright lines' fit residuals, not used: they grow faster than the counts,"
+                            + " so the line profile, not the gain, makes them)", gainEstimate.value(),
+                            gainEstimate.sigma(), gainEstimate.fits()) + read;
+                }
                 if (gainEstimate.isAvailable()) {
                     return String.format(java.util.Locale.ROOT, "gain 1 count per photo-electron (estimated %.3g +-"
                             + " %.2g from %d bright lines' fit residuals, not clearly above 1)", gainEstimate.value(),
