@@ -113,6 +113,19 @@ final class CalibrateCommand implements Callable<Integer> {
                     + "degree).")
     Double saturation;
 
+    @Option(names = "--gain", paramLabel = "G",
+            description = "The detector's gain in counts per photo-electron (its data sheet, or a photon-transfer"
+                    + " measurement), e.g. 3.7: a pixel's variance is its background noise plus G times the line's"
+                    + " counts. Default: the counts' common step when they have one (counts all multiples of 16: 16);"
+                    + " else estimated from the bright lines' fit residuals and used when clearly above 1; else 1."
+                    + " The report says which.")
+    Double gain;
+
+    @Option(names = "--read-noise", paramLabel = "COUNTS",
+            description = "The detector's read noise in counts RMS (not electrons): a floor under the background"
+                    + " noise measured in the spectrum. Default: the measured noise alone.")
+    Double readNoise;
+
     @Option(names = "--tolerance", paramLabel = "PIXELS", defaultValue = "3",
             description = "How far (pixels) a peak may lie from a line's predicted place to pair. Default: ${DEFAULT-VALUE}.")
     double tolerance;
@@ -176,6 +189,12 @@ final class CalibrateCommand implements Callable<Integer> {
         if (apply != null) {
             return applySolution(spectrum);
         }
+        if (spectrum.sigmas() != null) {
+            new OptionRules(spec).refuseUnless("--gain", false, "with a spectrum that gives counts_sigma (the"
+                    + " file's pixel uncertainties are used as given)");
+            new OptionRules(spec).refuseUnless("--read-noise", false, "with a spectrum that gives counts_sigma (the"
+                    + " file's pixel uncertainties are used as given)");
+        }
         CalibrationProblem problem = CalibrationProblem.builder(spectrum.counts()).sigmas(spectrum.sigmas())
                 .lamp(lampSet(AxisMedium.of(medium))).prior(prior()).source(spectrum.source()).build();
         Calibration calibration;
@@ -189,6 +208,9 @@ final class CalibrateCommand implements Callable<Integer> {
         }
         for (String note : calibration.notes()) {
             spec.commandLine().getErr().println("note: " + note);
+        }
+        if (calibration.peaks().gainNote() != null) {
+            spec.commandLine().getErr().println("note: " + calibration.peaks().gainNote());
         }
         DispersionSolution solution = calibration.solution();
         String description = calibration.description();
@@ -228,7 +250,8 @@ final class CalibrateCommand implements Callable<Integer> {
         OptionRules rules = new OptionRules(spec);
         if (apply != null) {
             for (String option : new String[] {"--lamp", "--lines", "--medium", "--from", "--to", "--dispersion-range",
-                "--degree", "--max-degree", "--threshold", "--saturation", "--tolerance", "--min-matched", "--min-strength",
+                "--degree", "--max-degree", "--threshold", "--saturation", "--gain", "--read-noise", "--tolerance",
+                "--min-matched", "--min-strength",
                 "--no-second-order", "--required-precision", "--unchecked-ends", "--clip", "--plot", "--format",
                 "--data"}) {
                 rules.refuseUnless(option, false, "with --apply (the saved solution is applied as it is; "
@@ -261,6 +284,13 @@ final class CalibrateCommand implements Callable<Integer> {
         if (saturation != null) {
             OptionRules.range("--saturation", saturation, 0, false, 1e15, "a number of counts above 0 and at most 1e15");
         }
+        if (gain != null) {
+            OptionRules.range("--gain", gain, 0, false, 1e6,
+                    "counts per photo-electron above 0 and at most 1e6 (e.g. 3.7)");
+        }
+        if (readNoise != null) {
+            OptionRules.range("--read-noise", readNoise, 0, true, 1e12, "counts RMS from 0 to 1e12 (e.g. 12)");
+        }
     }
 
     /**
@@ -282,6 +312,8 @@ final class CalibrateCommand implements Callable<Integer> {
         calibrator = degree.equals("auto") ? calibrator.withAutomaticDegree(maxDegree)
                 : calibrator.withDegree(parseDegree());
         calibrator = requiredPrecision == null ? calibrator : calibrator.withRequiredPrecision(requiredPrecision);
+        calibrator = gain == null ? calibrator : calibrator.withGain(gain);
+        calibrator = readNoise == null ? calibrator : calibrator.withReadNoise(readNoise);
         return saturation == null ? calibrator : calibrator.withSaturationLevel(saturation);
     }
 
@@ -425,17 +457,19 @@ final class CalibrateCommand implements Callable<Integer> {
         String clamped = Double.isNaN(peaks.clampLevel()) ? "" : String.format(Locale.ROOT,
                 "; counts clamped at %s (%.0f %% of the background pixels): background noise from the pixels"
                         + " above it", plain(peaks.clampLevel()), 100 * peaks.clampedShare());
+        String gain = "; " + peaks.gainStatement();
         if (peaks.countedPhotons()) {
-            String step = plain(peaks.countsPerPhoton());
-            return "counted photons: no background noise and counts in steps of " + step + ", so a photon is taken"
-                    + " as " + step + " counts; Poisson variances unscaled";
+            // The gain is the counts' step unless it was given or estimated.
+            boolean step = peaks.gainSource() == Peaks.GainSource.STEP
+                    || peaks.gainSource() == Peaks.GainSource.ASSUMED;
+            String counts = plain(peaks.countsPerPhoton());
+            return "counted photons: no background noise" + (step ? " and counts in steps of " + counts
+                    + ", so a photon is taken as " + counts + " counts" : "") + "; Poisson variances unscaled" + gain;
         }
         if (Double.isNaN(peaks.noiseScale())) {
             return "too few peaks to pool their scatter: each centroid uncertainty is widened by its own fit's,"
-                    + " never narrowed" + clamped;
+                    + " never narrowed" + clamped + gain;
         }
-        String gain = peaks.countsPerPhoton() == 1 ? "" : "; counts in steps of " + plain(peaks.countsPerPhoton())
-                + " taken as that many per photo-electron";
         return String.format(Locale.ROOT, "pixel variance %.3g times the Poisson model's", peaks.noiseScale())
                 + gain + clamped;
     }

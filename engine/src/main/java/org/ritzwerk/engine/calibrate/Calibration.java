@@ -351,9 +351,13 @@ public final class Calibration {
         return n;
     }
 
-    /** @return a one-line description: the exposure and the lamp sets */
+    /**
+     * @return a one-line description: the exposure, the lamp sets and the gain of the peaks' noise
+     *         model ({@link Peaks#gainStatement()}); the saved calibration file carries it
+     */
     public String description() {
-        return "spectrum " + problem.source() + "; lamp sets " + String.join(", ", problem.lamp().setIds());
+        return "spectrum " + problem.source() + "; lamp sets " + String.join(", ", problem.lamp().setIds()) + "; "
+                + peaks.gainStatement();
     }
 
     @Override

@@ -55,10 +55,13 @@ public final class Calibrator {
     private final boolean secondOrder;
     private final double requiredPrecision;
     private final boolean uncheckedEnds;
+    /** The detector's gain in counts per photo-electron and read noise in counts, NaN when not given. */
+    private final double gain;
+    private final double readNoise;
 
     private Calibrator(double threshold, double saturation, boolean negativeCountsAllowed, double tolerance,
             double minMatched, double clip, int degree, int maxDegree, double maxChi2, boolean secondOrder,
-            double requiredPrecision, boolean uncheckedEnds) {
+            double requiredPrecision, boolean uncheckedEnds, double gain, double readNoise) {
         this.threshold = threshold;
         this.saturation = saturation;
         this.negativeCountsAllowed = negativeCountsAllowed;
@@ -71,6 +74,8 @@ public final class Calibrator {
         this.secondOrder = secondOrder;
         this.requiredPrecision = requiredPrecision;
         this.uncheckedEnds = uncheckedEnds;
+        this.gain = gain;
+        this.readNoise = readNoise;
     }
 
     /**
@@ -83,7 +88,7 @@ public final class Calibrator {
     public static Calibrator defaults() {
         return new Calibrator(PeakFinder.DEFAULT_THRESHOLD, Double.NaN, true, DEFAULT_TOLERANCE, DEFAULT_MIN_MATCHED,
                 DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE, DEFAULT_MAX_REDUCED_CHI_SQUARE, true,
-                Double.POSITIVE_INFINITY, false);
+                Double.POSITIVE_INFINITY, false, Double.NaN, Double.NaN);
     }
 
     /**
@@ -93,7 +98,7 @@ public final class Calibrator {
     public Calibrator withThreshold(double snr) {
         PeakFinder.defaults().withThreshold(snr); // validates
         return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -104,7 +109,7 @@ public final class Calibrator {
     public Calibrator withSaturationLevel(double counts) {
         PeakFinder.defaults().withSaturationLevel(counts); // validates
         return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -113,7 +118,7 @@ public final class Calibrator {
      */
     public Calibrator withNegativeCountsAllowed(boolean allowed) {
         return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -123,7 +128,7 @@ public final class Calibrator {
     public Calibrator withTolerance(double pixels) {
         LampMatcher.defaults().withTolerance(pixels); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -134,7 +139,7 @@ public final class Calibrator {
     public Calibrator withMinMatchedFraction(double fraction) {
         LampMatcher.defaults().withMinInlierFraction(fraction); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -144,7 +149,7 @@ public final class Calibrator {
     public Calibrator withClipping(double k) {
         DispersionFit.automatic(1).withClipping(k, DispersionFit.DEFAULT_CLIP_ITERATIONS); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -154,7 +159,7 @@ public final class Calibrator {
     public Calibrator withDegree(int fixedDegree) {
         DispersionFit.ofDegree(fixedDegree); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, fixedDegree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -164,7 +169,7 @@ public final class Calibrator {
     public Calibrator withAutomaticDegree(int highest) {
         DispersionFit.automatic(highest); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest,
-                maxChi2, secondOrder, requiredPrecision, uncheckedEnds);
+                maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -179,7 +184,7 @@ public final class Calibrator {
                     + limit);
         }
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, limit, secondOrder, requiredPrecision, uncheckedEnds);
+                maxDegree, limit, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -190,7 +195,7 @@ public final class Calibrator {
      */
     public Calibrator withSecondOrder(boolean considered) {
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, considered, requiredPrecision, uncheckedEnds);
+                maxDegree, maxChi2, considered, requiredPrecision, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -210,7 +215,7 @@ public final class Calibrator {
                     + pixels);
         }
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, pixels, uncheckedEnds);
+                maxDegree, maxChi2, secondOrder, pixels, uncheckedEnds, gain, readNoise);
     }
 
     /** @return the largest accepted stated standard uncertainty in pixels; infinite when none is required */
@@ -234,7 +239,46 @@ public final class Calibrator {
      */
     public Calibrator withUncheckedEndsAccepted(boolean accepted) {
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, accepted);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, accepted, gain, readNoise);
+    }
+
+    /**
+     * The detector's gain, from its data sheet or a photon-transfer measurement, for the peaks'
+     * noise model (see {@link PeakFinder#withGain}); without it the gain is the counts' common
+     * step, or estimated from the bright lines' fit residuals, or 1 ({@link Peaks#gainSource()}).
+     *
+     * @param countsPerElectron counts per photo-electron, finite and &gt; 0
+     * @return a solver with that gain
+     * @throws IllegalArgumentException naming the gain when it is not finite and positive
+     */
+    public Calibrator withGain(double countsPerElectron) {
+        PeakFinder.defaults().withGain(countsPerElectron); // validates
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, countsPerElectron, readNoise);
+    }
+
+    /**
+     * The detector's read noise, a floor under the measured background noise of each pixel (see
+     * {@link PeakFinder#withReadNoise}).
+     *
+     * @param counts read noise in counts RMS, finite and &gt;= 0
+     * @return a solver with that read noise
+     * @throws IllegalArgumentException naming the read noise when it is negative, NaN or infinite
+     */
+    public Calibrator withReadNoise(double counts) {
+        PeakFinder.defaults().withReadNoise(counts); // validates
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, counts);
+    }
+
+    /** @return the detector's gain given in counts per photo-electron, NaN when none was given */
+    public double gain() {
+        return gain;
+    }
+
+    /** @return the detector's read noise given in counts RMS, NaN when none was given */
+    public double readNoise() {
+        return readNoise;
     }
 
     /** @return whether solutions resting on an unchecked end pairing are accepted */
@@ -301,6 +345,8 @@ public final class Calibrator {
         Objects.requireNonNull(problem, "problem");
         PeakFinder finder = PeakFinder.defaults().withThreshold(threshold)
                 .withNegativeCountsAllowed(negativeCountsAllowed);
+        finder = Double.isNaN(gain) ? finder : finder.withGain(gain);
+        finder = Double.isNaN(readNoise) ? finder : finder.withReadNoise(readNoise);
         double inferred = Double.isNaN(saturation) ? inferredSaturation(problem.countsView()) : Double.NaN;
         if (!Double.isNaN(saturation)) {
             finder = finder.withSaturationLevel(saturation);

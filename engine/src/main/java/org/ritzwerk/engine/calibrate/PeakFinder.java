@@ -68,6 +68,22 @@ import java.util.List;
  * above the clamp (see {@code Baseline}), and their F is at least 1. {@link Peaks#countsPerPhoton()},
  * {@link Peaks#countedPhotons()} and {@link Peaks#clampLevel()} report what was assumed.
  *
+ * <p><b>The gain h.</b> Given ({@link #withGain}, from the detector's data sheet or a
+ * photon-transfer measurement), it is used as given. Otherwise the common step above, when it is
+ * not 1. Otherwise (counts on no common step, as from a camera of 3.7 counts per photo-electron,
+ * or on a step of 1) it is estimated from the bright lines' own fit residuals (see
+ * {@code GainEstimate}: where the line's counts dominate a pixel's variance, the squared residual
+ * over the counts estimates h): the peaks are found and fitted with h = 1, the estimate made, and
+ * when it is clearly above 1 (beyond the chi-square quantile at 3 standard deviations, so gain-1
+ * exposures keep h = 1 and their results) found and fitted again with it, the estimate then made
+ * once more from those fits and a third pass made when it moved by more than its own standard
+ * deviation. An estimate below 1 is never used (it would narrow the uncertainties), nor one from
+ * fewer than 5 bright, well-fitted, unsaturated fits: h is then 1, and {@link Peaks#gainNote()}
+ * says why. {@link Peaks#gainSource()} and {@link Peaks#gainStatement()} report which it was. A
+ * read noise given ({@link #withReadNoise}, in counts) is a floor under the measured background
+ * noise sigma_bg(i), which stays where larger: it holds the baseline's own photon noise, and the
+ * baseline may hold a bias offset that is no photons, so the gain times the baseline is not added.
+ *
  * <p><b>Poor fits.</b> In both modes, a fit whose chi-square (over F) exceeds the 99th percentile
  * of the chi-square distribution (Wilson-Hilferty approximation) has its peaks' covariance
  * scaled by its own reduced chi-square instead, and its peaks flagged {@link PeakFlag#POOR_FIT}:
@@ -136,9 +152,13 @@ public final class PeakFinder {
     private final int maxBlend;
     private final double saturationLevel;
     private final boolean negativeAllowed;
+    /** The detector's gain in counts per photo-electron, NaN when not given. */
+    private final double gain;
+    /** The detector's read noise in counts (RMS), NaN when not given. */
+    private final double readNoise;
 
     private PeakFinder(double threshold, int baselineWindow, double smoothing, double fitHalfWidth, int maxBlend,
-            double saturationLevel, boolean negativeAllowed) {
+            double saturationLevel, boolean negativeAllowed, double gain, double readNoise) {
         this.threshold = threshold;
         this.baselineWindow = baselineWindow;
         this.smoothing = smoothing;
@@ -146,6 +166,8 @@ public final class PeakFinder {
         this.maxBlend = maxBlend;
         this.saturationLevel = saturationLevel;
         this.negativeAllowed = negativeAllowed;
+        this.gain = gain;
+        this.readNoise = readNoise;
     }
 
     /**
@@ -155,7 +177,7 @@ public final class PeakFinder {
      */
     public static PeakFinder defaults() {
         return new PeakFinder(DEFAULT_THRESHOLD, DEFAULT_BASELINE_WINDOW, DEFAULT_SMOOTHING, DEFAULT_FIT_HALF_WIDTH,
-                DEFAULT_MAX_BLEND, Double.POSITIVE_INFINITY, false);
+                DEFAULT_MAX_BLEND, Double.POSITIVE_INFINITY, false, Double.NaN, Double.NaN);
     }
 
     /**
@@ -166,7 +188,8 @@ public final class PeakFinder {
         if (!(snr > 0) || Double.isInfinite(snr)) {
             throw new IllegalArgumentException("threshold must be a finite signal-to-noise ratio > 0, got " + snr);
         }
-        return new PeakFinder(snr, baselineWindow, smoothing, fitHalfWidth, maxBlend, saturationLevel, negativeAllowed);
+        return new PeakFinder(snr, baselineWindow, smoothing, fitHalfWidth, maxBlend, saturationLevel, negativeAllowed,
+                gain, readNoise);
     }
 
     /**
@@ -178,7 +201,8 @@ public final class PeakFinder {
         if (pixels < 5) {
             throw new IllegalArgumentException("baseline window must be at least 5 pixels, got " + pixels);
         }
-        return new PeakFinder(threshold, pixels, smoothing, fitHalfWidth, maxBlend, saturationLevel, negativeAllowed);
+        return new PeakFinder(threshold, pixels, smoothing, fitHalfWidth, maxBlend, saturationLevel, negativeAllowed,
+                gain, readNoise);
     }
 
     /**
@@ -191,7 +215,7 @@ public final class PeakFinder {
             throw new IllegalArgumentException("smoothing must be 0 to 10 pixels, got " + sigmaPixels);
         }
         return new PeakFinder(threshold, baselineWindow, sigmaPixels, fitHalfWidth, maxBlend, saturationLevel,
-                negativeAllowed);
+                negativeAllowed, gain, readNoise);
     }
 
     /**
@@ -202,7 +226,8 @@ public final class PeakFinder {
         if (!(fwhms >= 1 && fwhms <= 10)) {
             throw new IllegalArgumentException("fit half-width must be 1 to 10 FWHM, got " + fwhms);
         }
-        return new PeakFinder(threshold, baselineWindow, smoothing, fwhms, maxBlend, saturationLevel, negativeAllowed);
+        return new PeakFinder(threshold, baselineWindow, smoothing, fwhms, maxBlend, saturationLevel, negativeAllowed,
+                gain, readNoise);
     }
 
     /**
@@ -214,7 +239,7 @@ public final class PeakFinder {
             throw new IllegalArgumentException("max blend must be 1 to 20 peaks, got " + peaks);
         }
         return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, peaks, saturationLevel,
-                negativeAllowed);
+                negativeAllowed, gain, readNoise);
     }
 
     /**
@@ -229,7 +254,8 @@ public final class PeakFinder {
             throw new IllegalArgumentException("saturation level must be above 0 counts, or +infinity for none, got "
                     + counts + " (every pixel would be saturated)");
         }
-        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, counts, negativeAllowed);
+        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, counts, negativeAllowed,
+                gain, readNoise);
     }
 
     /**
@@ -238,7 +264,55 @@ public final class PeakFinder {
      * @return a copy with that policy
      */
     public PeakFinder withNegativeCountsAllowed(boolean allowed) {
-        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, saturationLevel, allowed);
+        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, saturationLevel, allowed,
+                gain, readNoise);
+    }
+
+    /**
+     * The detector's gain, from its data sheet or a photon-transfer measurement: the line's part of
+     * each pixel's variance is then this times its counts, instead of the gain the counts' step
+     * gives or the finder estimates (see the class comment). Pixel uncertainties given to
+     * {@link #find(double[], double[])} are still used as given.
+     *
+     * @param countsPerElectron counts per photo-electron, finite and &gt; 0 (3.7 for a camera of
+     *                          0.27 electrons per count)
+     * @return a copy with that gain
+     * @throws IllegalArgumentException naming the gain when it is not finite and positive
+     */
+    public PeakFinder withGain(double countsPerElectron) {
+        if (!(countsPerElectron > 0) || Double.isInfinite(countsPerElectron)) {
+            throw new IllegalArgumentException("gain must be a finite number of counts per photo-electron > 0, got "
+                    + countsPerElectron);
+        }
+        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, saturationLevel,
+                negativeAllowed, countsPerElectron, readNoise);
+    }
+
+    /**
+     * The detector's read noise: each pixel's background noise is then at least this, where the
+     * measured background noise is smaller (see the class comment).
+     *
+     * @param counts read noise in counts RMS (not electrons), finite and &gt;= 0
+     * @return a copy with that read noise
+     * @throws IllegalArgumentException naming the read noise when it is negative, NaN or infinite
+     */
+    public PeakFinder withReadNoise(double counts) {
+        if (!(counts >= 0) || Double.isInfinite(counts)) {
+            throw new IllegalArgumentException("read noise must be a finite number of counts (RMS) >= 0, got "
+                    + counts);
+        }
+        return new PeakFinder(threshold, baselineWindow, smoothing, fitHalfWidth, maxBlend, saturationLevel,
+                negativeAllowed, gain, counts);
+    }
+
+    /** @return the gain given in counts per photo-electron, NaN when none was given */
+    public double gain() {
+        return gain;
+    }
+
+    /** @return the read noise given in counts RMS, NaN when none was given */
+    public double readNoise() {
+        return readNoise;
     }
 
     /**
@@ -327,19 +401,58 @@ public final class PeakFinder {
         double[] noise = Double.isNaN(clamp) ? Baseline.localNoise(counts, estimate, noiseWindow, firstNoise)
                 : Baseline.localCensoredNoise(counts, estimate, noiseWindow, firstNoise, clamp, step);
         double[] line = new double[n];
+        // A read noise given is a floor under the measured background noise (which also holds the
+        // baseline's own photon noise and any other noise the detector adds).
+        double readFloor = Double.isNaN(readNoise) ? 0 : readNoise;
         for (int i = 0; i < n; i++) {
-            noise[i] = Math.max(noise[i], floor);
+            noise[i] = Math.max(Math.max(noise[i], floor), readFloor);
             line[i] = counts[i] - baseline[i];
         }
         double[] smooth = smooth(line, smoothing);
-        // Counts that all share a common step above 1 (whole photo-electrons times a gain) carry a
-        // Poisson variance of that step times their counts; otherwise gain 1 is assumed and the
-        // pooled scale F takes up the difference.
-        double gain = counted || step > 1 ? step : 1;
+        boolean clamped = !Double.isNaN(clamp);
+        double share = clampedShare(counts, estimate, clamp);
+        // The gain: given; or the counts' common step when it is not 1 (whole photo-electrons times
+        // a gain: a Poisson variance of that step times their counts); or, for modelled variances,
+        // estimated from the bright lines' residuals, 1 when too few lines allow it or when the
+        // estimate is not clearly above 1 (GainEstimate.exceedsOne).
+        double stepGain = counted || step > 1 ? step : 1;
+        if (!Double.isNaN(gain) || stepGain != 1 || sigma != null) {
+            double used = Double.isNaN(gain) ? stepGain : gain;
+            Peaks.GainSource source = !Double.isNaN(gain) ? Peaks.GainSource.GIVEN
+                    : stepGain != 1 ? Peaks.GainSource.STEP : Peaks.GainSource.ASSUMED;
+            Run run = run(counts, sigma, saturated, noise, counted, used, clamped, baseline, line, smooth, false);
+            return run.peaks().withNoiseModel(counted, used, clamp, share)
+                    .withGain(source, GainEstimate.NONE, readNoise);
+        }
+        Run first = run(counts, sigma, saturated, noise, counted, 1, clamped, baseline, line, smooth, true);
+        GainEstimate estimated = first.estimate();
+        if (!estimated.exceedsOne()) {
+            return first.peaks().withNoiseModel(counted, 1, clamp, share)
+                    .withGain(Peaks.GainSource.ASSUMED, estimated, readNoise);
+        }
+        // Fitted again with the estimated gain's variances, the lines' residuals estimate it once
+        // more with the right weights; a third pass only when that moves it by more than its own
+        // standard deviation.
+        Run second = run(counts, sigma, saturated, noise, counted, estimated.value(), clamped, baseline, line, smooth,
+                true);
+        Run last = second;
+        GainEstimate again = second.estimate();
+        if (again.exceedsOne() && Math.abs(again.value() - estimated.value()) > again.sigma()) {
+            last = run(counts, sigma, saturated, noise, counted, again.value(), clamped, baseline, line, smooth, false);
+            estimated = again;
+        }
+        return last.peaks().withNoiseModel(counted, estimated.value(), clamp, share)
+                .withGain(Peaks.GainSource.ESTIMATED, estimated, readNoise);
+    }
+
+    /** One search and fit of the peaks with one gain, and the gain the fits' residuals estimate when asked. */
+    private record Run(Peaks peaks, GainEstimate estimate) {
+    }
+
+    private Run run(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
+            double gain, boolean clamped, double[] baseline, double[] line, double[] smooth, boolean estimate) {
         int[] candidates = candidates(line, smooth, saturated, sigma, noise, gain);
-        Peaks found = fitAll(counts, sigma, saturated, noise, counted, gain, !Double.isNaN(clamp), baseline, line,
-                candidates);
-        return found.withNoiseModel(counted, gain, clamp, clampedShare(counts, estimate, clamp));
+        return fitAll(counts, sigma, saturated, noise, counted, gain, clamped, baseline, line, candidates, estimate);
     }
 
     /** The share of the baseline's unmasked pixels that sit at the clamp, or NaN when not clamped. */
@@ -510,7 +623,7 @@ public final class PeakFinder {
     /** What every fit of one spectrum reads: the counts and their noise model, and the candidates. */
     private record Frame(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
             double gain,
-            double[] line, int[] candidates, double[] start, double[] fwhm, int[] halfWindow) {
+            double[] line, int[] candidates, double[] start, double[] fwhm, int[] halfWindow, boolean estimate) {
     }
 
     /**
@@ -522,8 +635,8 @@ public final class PeakFinder {
      * variances, is refitted with the width held at s_ref, then accepted as any other (see the
      * class comment).
      */
-    private Peaks fitAll(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
-            double gain, boolean clamped, double[] baseline, double[] line, int[] candidates) {
+    private Run fitAll(double[] counts, double[] sigma, boolean[] saturated, double[] noise, boolean counted,
+            double gain, boolean clamped, double[] baseline, double[] line, int[] candidates, boolean estimate) {
         int n = counts.length;
         int m = candidates.length;
         double[] fwhm = new double[m];
@@ -538,7 +651,7 @@ public final class PeakFinder {
             halfWindow[k] = Math.max(3, (int) Math.ceil(fitHalfWidth * fwhm[k]));
         }
         Frame frame = new Frame(counts, sigma, saturated, noise, counted, gain, line, candidates, start, fwhm,
-                halfWindow);
+                halfWindow, estimate);
         List<int[]> chains = new ArrayList<>();
         int k = 0;
         while (k < m) {
@@ -569,7 +682,8 @@ public final class PeakFinder {
             }
             out.absorb(parts[c]);
         }
-        return out.build(n, noise, baseline, sigma != null, clamped);
+        Peaks peaks = out.build(n, noise, baseline, sigma != null, clamped);
+        return new Run(peaks, estimate ? out.estimateGain(gain, counted) : GainEstimate.NONE);
     }
 
     /** Splits a chain of overlapping candidates [from, to) into blends of at most maxBlend. */
@@ -628,9 +742,10 @@ public final class PeakFinder {
      * gave none, once more with the line's Poisson variance from the fitted model, not the noisy data.
      */
     private static GaussianBlendFit.Result fitTwice(double[] x, double[] y, double[] s, double[] q0, double mid,
-            double half, int lo, int hi, double maxWidth, boolean fixedWidth, Frame frame) {
+            double half, int lo, int hi, double maxWidth, boolean fixedWidth, Frame frame, double[] used) {
         GaussianBlendFit.Result fit = fixedWidth ? GaussianBlendFit.fitFixedWidth(x, y, s, q0, mid, half, lo, hi)
                 : GaussianBlendFit.fit(x, y, s, q0, mid, half, lo, hi, maxWidth);
+        System.arraycopy(s, 0, used, 0, s.length);
         if (fit == null || frame.sigma() != null) {
             return fit;
         }
@@ -645,6 +760,7 @@ public final class PeakFinder {
             model[i] = Math.sqrt(noise[pixel] * noise[pixel]
                     + Math.max(least, frame.gain() * Math.max(0, GaussianBlendFit.linesAt(fit.parameters(), x[i]))));
         }
+        System.arraycopy(model, 0, used, 0, model.length);
         return fixedWidth ? GaussianBlendFit.fitFixedWidth(x, y, model, fit.parameters(), mid, half, lo, hi)
                 : GaussianBlendFit.fit(x, y, model, fit.parameters(), mid, half, lo, hi, maxWidth);
     }
@@ -732,7 +848,8 @@ public final class PeakFinder {
             double mid = 0.5 * (lo + hi);
             double half = Math.max(1, 0.5 * (hi - lo));
             double maxWidth = Math.max(1, 0.5 * (hi - lo));
-            GaussianBlendFit.Result fit = fitTwice(x, y, s, q0, mid, half, lo, hi, maxWidth, false, frame);
+            double[] fitSigma = new double[used];
+            GaussianBlendFit.Result fit = fitTwice(x, y, s, q0, mid, half, lo, hi, maxWidth, false, frame, fitSigma);
             boolean fixed = false;
             if (fit == null || !finiteVariances(fit, kCount)) {
                 out.degenerate = true;
@@ -745,7 +862,7 @@ public final class PeakFinder {
                     q0[a] = Math.max(line[candidates[members.get(j)]], noise[candidates[members.get(j)]])
                             * reference * SQRT_2PI;
                 }
-                fit = fitTwice(x, y, s, q0, mid, half, lo, hi, maxWidth, true, frame);
+                fit = fitTwice(x, y, s, q0, mid, half, lo, hi, maxWidth, true, frame, fitSigma);
                 fixed = true;
             }
             if (fit != null && !finiteVariances(fit, kCount)) {
@@ -786,6 +903,15 @@ public final class PeakFinder {
             if (drop < 0) {
                 int dof = fit.points() - p;
                 int group = out.newFit(fit.chiSquare(), dof, fixed ? Double.POSITIVE_INFINITY : s0);
+                if (frame.estimate() && !fixed) {
+                    boolean clear = true;
+                    for (int i = lo; i <= hi; i++) {
+                        clear &= !saturated[i];
+                    }
+                    if (clear) {
+                        out.gainPixels(group, GainEstimate.pixels(fit, x, y, fitSigma, noise, mid, half));
+                    }
+                }
                 for (int j = 0; j < kCount; j++) {
                     int a = GaussianBlendFit.FIRST + 2 * j;
                     double flux = q[a];
@@ -959,6 +1085,8 @@ public final class PeakFinder {
         private boolean degenerate;
         private int[] unfitted = new int[4];
         private int unfittedSize;
+        /** Per fit, the pixels from which the gain is estimated ({@link GainEstimate#pixels}); null when none. */
+        private double[][][] gainPixels = new double[8][][];
 
         /** Whether the exposure counted photons (see find): the Poisson variances need no scale. */
         private final boolean counted;
@@ -976,11 +1104,26 @@ public final class PeakFinder {
                 fitChiSquare = Arrays.copyOf(fitChiSquare, 2 * fits);
                 fitDof = Arrays.copyOf(fitDof, 2 * fits);
                 fitWidth = Arrays.copyOf(fitWidth, 2 * fits);
+                gainPixels = Arrays.copyOf(gainPixels, 2 * fits);
             }
             fitChiSquare[fits] = chiSquare;
             fitDof[fits] = dof;
             fitWidth[fits] = width;
             return fits++;
+        }
+
+        /** Keeps a fit's pixels for the gain estimate. */
+        void gainPixels(int fit, double[][] pixels) {
+            gainPixels[fit] = pixels;
+        }
+
+        /**
+         * @param gain    the gain the fits' variances assumed
+         * @param counted whether the exposure counted photons
+         * @return the gain the fits' residuals estimate (see {@link GainEstimate#of})
+         */
+        GainEstimate estimateGain(double gain, boolean counted) {
+            return GainEstimate.of(Arrays.copyOf(gainPixels, fits), Arrays.copyOf(fitDof, fits), gain, counted);
         }
 
         /** @return the smallest free width of the fits, +infinity when none */
@@ -996,7 +1139,7 @@ public final class PeakFinder {
         void absorb(Collector other) {
             int offset = fits;
             for (int f = 0; f < other.fits; f++) {
-                newFit(other.fitChiSquare[f], other.fitDof[f], other.fitWidth[f]);
+                gainPixels(newFit(other.fitChiSquare[f], other.fitDof[f], other.fitWidth[f]), other.gainPixels[f]);
             }
             for (int r = 0; r < other.size; r++) {
                 double[][] c = other.columns;

@@ -26,6 +26,22 @@ import java.util.Set;
  */
 public final class Peaks {
 
+    /** Where the gain in the pixels' Poisson variance ({@link #countsPerPhoton()}) came from. */
+    public enum GainSource {
+        /** Given by the caller (the detector's data sheet or a photon-transfer measurement). */
+        GIVEN,
+        /** The counts' common step (every count the lowest plus a whole multiple of it). */
+        STEP,
+        /** Estimated from the bright lines' fit residuals ({@link #gainEstimate()}). */
+        ESTIMATED,
+        /**
+         * 1, assumed: too few bright, well-fitted lines for an estimate, or an estimate not clearly
+         * above 1 (one below 1 is never used: it would narrow the uncertainties), or pixel
+         * uncertainties given (which make the gain irrelevant)
+         */
+        ASSUMED
+    }
+
     private final int pixels;
     private final double[] centre;
     private final double[] centreSigma;
@@ -46,6 +62,9 @@ public final class Peaks {
     private final double countsPerPhoton;
     private final double clampLevel;
     private final double clampedShare;
+    private final GainSource gainSource;
+    private final GainEstimate gainEstimate;
+    private final double readNoise;
 
     Peaks(int pixels, double[] centre, double[] centreSigma, double[] flux, double[] fluxSigma, double[] height,
             double[] fwhm, double[] fwhmSigma, double[] signalToNoise, double[] reducedChiSquare, int[] flags,
@@ -70,9 +89,13 @@ public final class Peaks {
         this.countsPerPhoton = 1;
         this.clampLevel = Double.NaN;
         this.clampedShare = Double.NaN;
+        this.gainSource = GainSource.ASSUMED;
+        this.gainEstimate = GainEstimate.NONE;
+        this.readNoise = Double.NaN;
     }
 
-    private Peaks(Peaks p, boolean countedPhotons, double countsPerPhoton, double clampLevel, double clampedShare) {
+    private Peaks(Peaks p, boolean countedPhotons, double countsPerPhoton, double clampLevel, double clampedShare,
+            GainSource gainSource, GainEstimate gainEstimate, double readNoise) {
         this.pixels = p.pixels;
         this.centre = p.centre;
         this.centreSigma = p.centreSigma;
@@ -93,11 +116,21 @@ public final class Peaks {
         this.countsPerPhoton = countsPerPhoton;
         this.clampLevel = clampLevel;
         this.clampedShare = clampedShare;
+        this.gainSource = gainSource;
+        this.gainEstimate = gainEstimate;
+        this.readNoise = readNoise;
     }
 
     /** @return a copy that states the noise model's assumptions (see the accessors) */
     Peaks withNoiseModel(boolean countedPhotons, double countsPerPhoton, double clampLevel, double clampedShare) {
-        return new Peaks(this, countedPhotons, countsPerPhoton, clampLevel, clampedShare);
+        return new Peaks(this, countedPhotons, countsPerPhoton, clampLevel, clampedShare, gainSource, gainEstimate,
+                readNoise);
+    }
+
+    /** @return a copy that states where the gain came from, the estimate made and the read noise given */
+    Peaks withGain(GainSource source, GainEstimate estimate, double readNoiseGiven) {
+        return new Peaks(this, countedPhotons, countsPerPhoton, clampLevel, clampedShare, source, estimate,
+                readNoiseGiven);
     }
 
     /** @return the number of peaks */
@@ -267,15 +300,104 @@ public final class Peaks {
     }
 
     /**
-     * @return the counts per photon (or photo-electron) assumed in the pixels' Poisson variance,
-     *         which is this times the line's counts: the step every count is a whole multiple of
-     *         (above the lowest count) when the exposure counted photons or that step exceeds 1
-     *         (16 for counts that are all multiples of 16); otherwise 1, and the pooled
-     *         {@link #noiseScale()} takes up any other gain. Pixel uncertainties given by the caller
-     *         are used as given.
+     * @return the counts per photon (or photo-electron), the gain, assumed in the pixels' Poisson
+     *         variance, which is this times the line's counts ({@link #gainSource()} says whence):
+     *         the gain given; else the step every count is a whole multiple of (above the lowest
+     *         count) when the exposure counted photons or that step exceeds 1 (16 for counts that
+     *         are all multiples of 16); else the estimate from the bright lines' fit residuals when
+     *         it is clearly above 1; else 1. The pooled {@link #noiseScale()} takes up what the
+     *         model still misses. Pixel uncertainties given by the caller are used as given.
      */
     public double countsPerPhoton() {
         return countsPerPhoton;
+    }
+
+    /** @return where {@link #countsPerPhoton()} came from */
+    public GainSource gainSource() {
+        return gainSource;
+    }
+
+    /**
+     * @return the gain in counts per photo-electron that the bright lines' fit residuals estimate
+     *         (see {@link PeakFinder}), whether or not it was used ({@link #gainSource()} ESTIMATED
+     *         when it was); NaN when none was made (gain given, a step found, pixel uncertainties
+     *         given) or too few lines allowed one ({@link #gainFits()} below 3)
+     */
+    public double gainEstimate() {
+        return gainEstimate.value();
+    }
+
+    /** @return the standard deviation of {@link #gainEstimate()}, NaN when there is none */
+    public double gainEstimateSigma() {
+        return gainEstimate.sigma();
+    }
+
+    /**
+     * @return how many bright, well-fitted, unsaturated profile fits (a blend's peaks share one)
+     *         the gain was estimated from, or were found when too few for an estimate; 0 when no
+     *         estimate was tried
+     */
+    public int gainFits() {
+        return gainEstimate.fits();
+    }
+
+    /** @return the read noise given in counts RMS (a floor under the background noise), NaN when none was given */
+    public double readNoise() {
+        return readNoise;
+    }
+
+    /**
+     * @return the gain used and where it came from, in words, e.g. "gain 3.7 counts per
+     *         photo-electron (given)" or "gain 3.68 +- 0.11 counts per photo-electron (estimated from
+     *         12 bright lines' fit residuals)"; with a read noise given, that too
+     */
+    public String gainStatement() {
+        String read = Double.isNaN(readNoise) ? "" : "; read noise " + plain(readNoise) + " counts (given)";
+        if (pixelSigmasGiven) {
+            return "gain not used (pixel uncertainties given)" + read;
+        }
+        String used = "gain " + plain(countsPerPhoton) + " counts per photo-electron";
+        switch (gainSource) {
+            case GIVEN:
+                return used + " (given)" + read;
+            case STEP:
+                return used + " (every count on a step of " + plain(countsPerPhoton) + ")" + read;
+            case ESTIMATED:
+                return String.format(java.util.Locale.ROOT, "gain %.3g +- %.2g counts per photo-electron (estimated"
+                        + " from %d bright lines' fit residuals)", countsPerPhoton, gainEstimate.sigma(),
+                        gainEstimate.fits()) + read;
+            default:
+                if (gainEstimate.isAvailable() && gainEstimate.profile()) {
+                    return String.format(java.util.Locale.ROOT, "gain 1 count per photo-electron (estimated %.3g +-"
+                            + " %.2g from %d bright lines' fit residuals, not used: they grow faster than the counts,"
+                            + " so the line profile, not the gain, makes them)", gainEstimate.value(),
+                            gainEstimate.sigma(), gainEstimate.fits()) + read;
+                }
+                if (gainEstimate.isAvailable()) {
+                    return String.format(java.util.Locale.ROOT, "gain 1 count per photo-electron (estimated %.3g +-"
+                            + " %.2g from %d bright lines' fit residuals, not clearly above 1)", gainEstimate.value(),
+                            gainEstimate.sigma(), gainEstimate.fits()) + read;
+                }
+                return "gain 1 count per photo-electron (assumed: " + gainNote() + ")" + read;
+        }
+    }
+
+    /**
+     * @return why the gain could not be estimated, when 1 was assumed for want of bright lines
+     *         ("3 bright, well-fitted lines are needed to estimate the gain, 1 found"); null otherwise
+     */
+    public String gainNote() {
+        if (pixelSigmasGiven || gainSource != GainSource.ASSUMED || gainEstimate.isAvailable()) {
+            return null;
+        }
+        return GainEstimate.MIN_FITS + " bright, well-fitted, unsaturated lines are needed to estimate the gain, "
+                + gainEstimate.fits() + " found; give the detector's gain if it is not 1";
+    }
+
+    /** A whole number without decimals, anything else to 6 significant digits. */
+    private static String plain(double value) {
+        return value == Math.rint(value) && Math.abs(value) < 1e15 ? Long.toString((long) value)
+                : String.format(java.util.Locale.ROOT, "%.6g", value).replaceAll("\\.?0+$", "");
     }
 
     /**

@@ -20,7 +20,7 @@ class CalibrationPeakFinderTest {
      * in pixels, on a constant baseline. The renderer integrates each pixel by Gauss-Legendre
      * quadrature to about 1e-10 (its Javadoc): an independent check of the fit's erf model.
      */
-    private static double[] render(int pixels, double baseline, double[] centre, double[] flux, double fwhm) {
+    static double[] render(int pixels, double baseline, double[] centre, double[] flux, double fwhm) {
         PixelGrid grid = PixelGrid.linear(-0.5, pixels - 0.5, pixels);
         double[] out = new double[pixels];
         Arrays.fill(out, baseline);
@@ -53,8 +53,8 @@ class CalibrationPeakFinderTest {
     }
 
     /** Eight isolated lines of assorted strength per spectrum, at known sub-pixel positions. */
-    private static final double[] ISOLATED = {40.3, 95.55, 150.81, 207.02, 261.7, 318.45, 371.13, 430.9};
-    private static final double[] ISOLATED_FLUX = {3e3, 1e4, 5e4, 2e3, 2e4, 8e3, 1.5e3, 3e4};
+    static final double[] ISOLATED = {40.3, 95.55, 150.81, 207.02, 261.7, 318.45, 371.13, 430.9};
+    static final double[] ISOLATED_FLUX = {3e3, 1e4, 5e4, 2e3, 2e4, 8e3, 1.5e3, 3e4};
 
     @Test
     void centroidUncertaintiesMatchTheScatter() {
