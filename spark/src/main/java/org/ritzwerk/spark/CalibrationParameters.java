@@ -49,6 +49,12 @@ import org.ritzwerk.medium.Medium;
  *                          ({@code --unchecked-ends}; {@code Calibrator.withUncheckedEndsAccepted}):
  *                          a window of three lamp lines needs it; by default such a row is refused
  *                          (failure code {@code calibrate.unchecked-end})
+ * @param gain              the detector's counts per photo-electron, above 0 ({@code --gain};
+ *                          {@code Calibrator.withGain}); NaN to take it from the counts' step or
+ *                          estimate it, as the command does without the option
+ * @param readNoise         the detector's read noise in counts, at least 0 ({@code --read-noise};
+ *                          {@code Calibrator.withReadNoise}), a floor under the measured noise; NaN
+ *                          for none
  *
  * <p>Serialisable only to travel from the driver to the executors of the same version, so the
  * serialised form is not part of the API.
@@ -59,7 +65,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
         String minStrength, double threshold, double tolerancePixels, double minMatched, double clip, int degree,
         int maxDegree, double saturation, double priorFromNm, double priorToNm, double minDispersion,
         double maxDispersion, boolean secondOrder, double requiredPrecision, double resolvingPower,
-        boolean uncheckedEnds) implements Serializable {
+        boolean uncheckedEnds, double gain, double readNoise) implements Serializable {
 
     private static final long serialVersionUID = 1L;
 
@@ -86,6 +92,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @param requiredPrecision as above
      * @param resolvingPower  as above
      * @param uncheckedEnds   as above
+     * @param gain            as above
+     * @param readNoise       as above
      */
     public CalibrationParameters {
         lamps = List.copyOf(lamps);
@@ -105,7 +113,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
             throw new IllegalArgumentException("priorFromNm and priorToNm must both be given or both be NaN");
         }
         calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
-                requiredPrecision);
+                requiredPrecision, gain, readNoise);
         prior(priorFromNm, priorToNm, minDispersion, maxDispersion);
         if (!Double.isNaN(resolvingPower) && !(resolvingPower >= 1 && resolvingPower <= 1e7)) {
             throw new IllegalArgumentException("resolvingPower must be 1 to 1e7, or NaN for the default, got "
@@ -125,7 +133,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
                 Calibrator.DEFAULT_TOLERANCE, Calibrator.DEFAULT_MIN_MATCHED, DispersionFit.DEFAULT_CLIP, 0,
                 Calibrator.DEFAULT_MAX_DEGREE, Double.NaN, Double.NaN, Double.NaN,
                 LampMatcher.Prior.none().minDispersion(), LampMatcher.Prior.none().maxDispersion(), true, Double.NaN,
-                Double.NaN, false);
+                Double.NaN, false, Double.NaN, Double.NaN);
     }
 
     /**
@@ -135,7 +143,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withMedium(String mediumSpec) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, mediumSpec, minStrength, threshold,
                 tolerancePixels, minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm,
-                minDispersion, maxDispersion, secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
+                minDispersion, maxDispersion, secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -145,7 +153,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withDataFiles(List<String> files) {
         return new CalibrationParameters(lamps, lineSets, files, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -156,7 +164,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withDegree(int fixed, int highest) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, fixed, highest, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -166,7 +174,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withSaturation(double counts) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, counts, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -179,7 +187,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withPrior(double fromNm, double toNm, double minNmPerPixel, double maxNmPerPixel) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, fromNm, toNm, minNmPerPixel, maxNmPerPixel,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -189,7 +197,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withSecondOrder(boolean considered) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                considered, requiredPrecision, resolvingPower, uncheckedEnds);
+                considered, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -201,7 +209,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withRequiredPrecision(double pixels) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, pixels, resolvingPower, uncheckedEnds);
+                secondOrder, pixels, resolvingPower, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -211,7 +219,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withResolvingPower(double r) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, r, uncheckedEnds);
+                secondOrder, requiredPrecision, r, uncheckedEnds, gain, readNoise);
     }
 
     /**
@@ -222,21 +230,38 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withUncheckedEnds(boolean accepted) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, accepted);
+                secondOrder, requiredPrecision, resolvingPower, accepted, gain, readNoise);
+    }
+
+    /**
+     * @param countsPerElectron the detector's gain, counts per photo-electron, above 0; NaN to take
+     *                          it from the counts' step or estimate it
+     * @param counts            the read noise in counts, at least 0; NaN for none
+     * @return a copy with that detector
+     */
+    public CalibrationParameters withDetector(double countsPerElectron, double counts) {
+        double gain = countsPerElectron;
+        double readNoise = counts;
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
     }
 
     /** @return the calibrator these settings describe (as the command configures it) */
     Calibrator calibrator() {
         return calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
-                requiredPrecision).withUncheckedEndsAccepted(uncheckedEnds);
+                requiredPrecision, gain, readNoise).withUncheckedEndsAccepted(uncheckedEnds);
     }
 
     private static Calibrator calibrator(double threshold, double tolerancePixels, double minMatched, double clip,
-            int degree, int maxDegree, double saturation, boolean secondOrder, double requiredPrecision) {
+            int degree, int maxDegree, double saturation, boolean secondOrder, double requiredPrecision, double gain,
+            double readNoise) {
         Calibrator calibrator = Calibrator.defaults().withThreshold(threshold).withTolerance(tolerancePixels)
                 .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(secondOrder);
         calibrator = degree == 0 ? calibrator.withAutomaticDegree(maxDegree) : calibrator.withDegree(degree);
         calibrator = Double.isNaN(requiredPrecision) ? calibrator : calibrator.withRequiredPrecision(requiredPrecision);
+        calibrator = Double.isNaN(gain) ? calibrator : calibrator.withGain(gain);
+        calibrator = Double.isNaN(readNoise) ? calibrator : calibrator.withReadNoise(readNoise);
         return Double.isNaN(saturation) ? calibrator : calibrator.withSaturationLevel(saturation);
     }
 

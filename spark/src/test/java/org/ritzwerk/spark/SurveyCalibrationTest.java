@@ -238,6 +238,33 @@ class SurveyCalibrationTest {
     }
 
     /**
+     * The command's --gain and --read-noise reach the operation (CalibrationParameters.withDetector):
+     * a row calibrated with a stated detector is the library's with the same settings, bit for bit,
+     * its description naming the gain given; bad values are refused as the library refuses them.
+     */
+    @Test
+    void aStatedDetectorGainReachesTheOperation() {
+        SparkSession spark = LocalSpark.session();
+        DataContext data = DataContext.builtIn();
+        double[] counts = Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.0, 9L);
+        Dataset<Row> table = spark.createDataFrame(List.of(RowFactory.create("lamp-1", counts, null)),
+                Schemas.EXPOSURES);
+        LampSet neon = LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
+        Calibration c = Calibrator.defaults().withGain(3.7).withReadNoise(2).calibrate(CalibrationProblem
+                .builder(counts).lamp(neon).source("lamp-1").build());
+        Row row = SurveyCalibration.of(CalibrationParameters.of(List.of("Ne I"), List.of()).withDetector(3.7, 2))
+                .calibrate(table).collectAsList().get(0);
+        assertNull(row.getAs("failure"));
+        assertArrayEquals(c.solution().polynomial().coefficients(), doubles(row.getList(6)));
+        assertEquals(c.description(), row.getAs("description"));
+        assertTrue(c.description().contains("3.7"), c.description());
+        CalibrationParameters p = CalibrationParameters.of(List.of("Ne I"), List.of());
+        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class, () -> p.withDetector(0, 2));
+        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                () -> p.withDetector(Double.NaN, -1));
+    }
+
+    /**
      * The command's --required-precision and --no-second-order reach the operation: a solution
      * less precise than required is refused in its row with the library's code and message, and
      * one within it is the library's, bit for bit.
