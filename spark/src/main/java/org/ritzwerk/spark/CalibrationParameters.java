@@ -240,11 +240,9 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @return a copy with that detector
      */
     public CalibrationParameters withDetector(double countsPerElectron, double counts) {
-        double gain = countsPerElectron;
-        double readNoise = counts;
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, countsPerElectron, counts);
     }
 
     /** @return the calibrator these settings describe (as the command configures it) */
