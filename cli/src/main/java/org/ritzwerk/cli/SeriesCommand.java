@@ -416,10 +416,13 @@ final class SeriesCommand implements Callable<Integer> {
         double p = fit.chiSquareProbability().getAsDouble();
         return fit.isImprobable() ? String.format(java.util.Locale.ROOT, " (probability %s: IMPROBABLE, see the "
                 + "notes; u x S scales the uncertainties by S = %.4g)", SeriesFit.probabilityText(p),
-                fit.uncertaintyScale()) : fit.isTooGood() ? String.format(java.util.Locale.ROOT, " (probability %.3g: "
-                + "TOO GOOD, the uncertainties look overstated; see the notes)", p)
-                : " (probability " + (p >= 0.9995 ? "above 0.999" : String.format(java.util.Locale.ROOT, "%.3g", p))
-                + ")";
+                fit.uncertaintyScale()) : fit.isTooGood() ? " (probability " + digits(p)
+                + ": TOO GOOD, the uncertainties look overstated; see the notes)" : " (probability " + digits(p) + ")";
+    }
+
+    /** @return a probability with three digits (0.996, not 1.0), or "above 0.999" where those round to 1 */
+    private static String digits(double p) {
+        return p >= 0.9995 ? "above 0.999" : String.format(java.util.Locale.ROOT, "%.3g", p);
     }
 
     private void section(boolean text, String title) {

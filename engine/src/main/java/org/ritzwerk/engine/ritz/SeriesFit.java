@@ -507,15 +507,16 @@ public final class SeriesFit {
         }
         unsettledTerms().ifPresent(u -> {
             ModelAverage average = modelAveragedLimit();
-            String fixed = u.terms().toString().replace(" ", "").replace("[", "").replace("]", "");
+            String larger = u.terms().toString().replace(" ", "");
+            String moved = u.moved().isEmpty() ? "" : " and " + String.join(", ", u.moved());
             notes.add(String.format(Locale.ROOT, "the choice of terms %s is unsettled: the model with terms %s, which "
-                    + "carries %.2f of the BIC weight (%.2f or more counts), moves the limit by %+.3g cm-1 (%+.2g u)%s, where u is the chosen model's "
-                    + "stated standard uncertainty (limit %.6f +- %.2g cm-1): that uncertainty leaves out the choice. "
-                    + "Quote the fit with the terms fixed (--terms %s, SeriesFitter.withTerms): limit %.6f +- %.2g "
-                    + "cm-1; the model-averaged limit %.6f +- %.2g cm-1 carries part of the choice", Arrays.toString(
-                    terms).replace(" ", ""), u.terms().toString().replace(" ", ""), u.weight(), UNSETTLED_WEIGHT,
-                    u.limitShiftPerCm(), u.limitShiftInUncertainties(), u.moved().isEmpty() ? ""
-                    : " and " + String.join(", ", u.moved()), limitPerCm(), limitUncertaintyPerCm(), fixed, u.limitPerCm(),
+                    + "carries %.2f of the BIC weight (%.2f or more counts), moves the limit by %+.3g cm-1 "
+                    + "(%+.2g u)%s, where u is the chosen model's stated standard uncertainty (limit %.6f +- %.2g "
+                    + "cm-1): that uncertainty leaves out the choice. Quote the fit with the terms fixed (--terms %s, "
+                    + "SeriesFitter.withTerms): limit %.6f +- %.2g cm-1; the model-averaged limit %.6f +- %.2g cm-1 "
+                    + "carries only part of the choice", Arrays.toString(terms).replace(" ", ""), larger, u.weight(),
+                    UNSETTLED_WEIGHT, u.limitShiftPerCm(), u.limitShiftInUncertainties(), moved, limitPerCm(),
+                    limitUncertaintyPerCm(), larger.substring(1, larger.length() - 1), u.limitPerCm(),
                     u.limitUncertaintyPerCm(), average.limitPerCm(), average.uncertaintyPerCm()));
         });
         if (isTooGood()) {
