@@ -167,6 +167,9 @@ final class SeriesCommand implements Callable<Integer> {
                 .toArray());
         List<SeriesFit.AveragedPrediction> averaged = fit.modelAveragedPredictions(predict.stream()
                 .mapToInt(Integer::intValue).toArray());
+        // the tables first, flushed and ending in a newline, then the notes: where both streams go to one
+        // terminal or file, a note never runs into the last table row
+        print(fit, contents, predictions, averaged);
         PrintWriter err = spec.commandLine().getErr();
         for (int i = 0; i < predictions.size(); i++) {
             SeriesFit.Prediction p = predictions.get(i);
@@ -183,7 +186,6 @@ final class SeriesCommand implements Callable<Integer> {
         }
         noteKnownLimit(fit);
         err.flush();
-        print(fit, contents, predictions, averaged);
         if (plot != null) {
             try (OutputFiles.Batch batch = new OutputFiles.Batch()) {
                 Plots.writeChart(batch, plot, defectChart(fit, plotted, contents));
@@ -264,9 +266,10 @@ final class SeriesCommand implements Callable<Integer> {
         boolean text = format == Table.Format.text;
         if (text) {
             out.printf(java.util.Locale.ROOT, "%s: %d series, %d members, R_M = %.6f cm-1; chi2 = %.4g for %d degrees "
-                    + "of freedom%s%n%n", contents.species().notation(), fit.series().size(),
+                    + "of freedom%s%s%n%n", contents.species().notation(), fit.series().size(),
                     fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
-                    fit.degreesOfFreedom(), quality(fit));
+                    fit.degreesOfFreedom(), quality(fit), fit.unsettledTerms().isPresent()
+                            ? "; the choice of terms is UNSETTLED: see the notes for what to quote" : "");
             if (!limit.isEmpty()) {
                 out.printf(java.util.Locale.ROOT, "Known limit %s +- %s cm-1 taken as a datum%n%n", limit.get(0),
                         limit.get(1));
@@ -281,14 +284,16 @@ final class SeriesCommand implements Callable<Integer> {
                     Table.Column.text("known_limit", "known limit"),
                     Table.Column.number("chi_square_probability", "P(chi2)", "%.3g"),
                     Table.Column.text("fit_quality", "quality"),
-                    Table.Column.number("uncertainty_scale", "S", "%.4g")), out, format);
+                    Table.Column.number("uncertainty_scale", "S", "%.4g"),
+                    Table.Column.text("term_choice", "terms")), out, format);
             summary.add("fit", contents.species().notation(), fit.series().size(),
                     fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
                     fit.degreesOfFreedom(), limit.isEmpty() ? null : limit.get(0) + " +- " + limit.get(1) + " cm-1",
                     fit.chiSquareProbability().isPresent() ? fit.chiSquareProbability().getAsDouble() : null,
                     fit.chiSquareProbability().isEmpty() ? "no degrees of freedom"
                             : fit.isImprobable() ? "improbable" : fit.isTooGood() ? "too-good" : "consistent",
-                    fit.uncertaintyScale());
+                    fit.uncertaintyScale(), fit.candidates().size() == 1 ? "one-model"
+                            : fit.unsettledTerms().isPresent() ? "unsettled" : "settled");
             summary.finish();
         }
         Table parameters = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("parameter", "parameter"),
@@ -411,9 +416,13 @@ final class SeriesCommand implements Callable<Integer> {
         double p = fit.chiSquareProbability().getAsDouble();
         return fit.isImprobable() ? String.format(java.util.Locale.ROOT, " (probability %s: IMPROBABLE, see the "
                 + "notes; u x S scales the uncertainties by S = %.4g)", SeriesFit.probabilityText(p),
-                fit.uncertaintyScale()) : fit.isTooGood() ? String.format(java.util.Locale.ROOT, " (probability %.2g: "
-                + "TOO GOOD, the uncertainties look overstated; see the notes)", p)
-                : String.format(java.util.Locale.ROOT, " (probability %.2g)", p);
+                fit.uncertaintyScale()) : fit.isTooGood() ? " (probability " + digits(p)
+                + ": TOO GOOD, the uncertainties look overstated; see the notes)" : " (probability " + digits(p) + ")";
+    }
+
+    /** @return a probability with three digits (0.996, not 1.0), or "above 0.999" where those round to 1 */
+    private static String digits(double p) {
+        return p >= 0.9995 ? "above 0.999" : String.format(java.util.Locale.ROOT, "%.3g", p);
     }
 
     private void section(boolean text, String title) {

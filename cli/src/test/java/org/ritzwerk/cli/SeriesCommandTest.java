@@ -6,9 +6,13 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
 import java.io.InputStream;
+import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.HashMap;
+import java.util.Locale;
+import java.util.Random;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -134,7 +138,7 @@ class SeriesCommandTest {
         CliTest.Run csv = CliTest.run("series", file.toString(), "--format", "csv");
         assertEquals(0, csv.code(), csv.err());
         assertTrue(csv.out().startsWith("kind,species,series,members,rydberg_per_cm,chi_square,degrees_of_freedom,"
-                + "known_limit,chi_square_probability,fit_quality,uncertainty_scale\nfit,\"Rb-87 I\",2,22,")
+                + "known_limit,chi_square_probability,fit_quality,uncertainty_scale,term_choice\nfit,\"Rb-87 I\",2,22,")
                 && csv.out().contains("\nkind,parameter,value,uncertainty,scaled_uncertainty,unit\n"),
                 csv.out());
     }
@@ -457,5 +461,56 @@ class SeriesCommandTest {
             }
         }
         assertEquals(2, seen, run.out());
+    }
+
+    /**
+     * A series shaped like Sr-88 5snd 1D2 (d0 2.3807, d2 -39.41, d4 -109.25 and limit 45932.2002 cm-1 of
+     * C. L. Vaillant, M. P. A. Jones and R. M. Potvliege, J. Phys. B 45, 135004 (2012), from memory), members
+     * n = 20-60 step 2 from {@code E = limit - R_M / (n - delta)^2} with R_M of Sr-88 (CODATA 2018 R_inf, AME2020
+     * mass 87.9056122571 u, from memory), noise of u = 0.001 cm-1 from seed 2: the criterion drops d4, and the
+     * command says the choice is unsettled (summary, note, JSON) and what to quote; the notes follow the tables.
+     */
+    @Test
+    void anUnsettledChoiceOfTermsIsSaid(@TempDir Path dir) throws IOException {
+        double electronU = 5.48579909065e-4;
+        double rm = 109737.31568160 / (1 + electronU / (87.9056122571 - electronU));
+        Random r = new Random(2);
+        StringBuilder b = new StringBuilder("# ritzwerk-series 1\n# species: Sr-88 I\n# energy-unit: cm-1\n"
+                + "series,n,energy,uncertainty\n");
+        for (int n = 20; n <= 60; n += 2) {
+            double x = n - 2.3807;
+            double delta = 2.3807 - 39.41 / (x * x) - 109.25 / (x * x * x * x);
+            b.append(String.format(Locale.ROOT, "5snd 1D2,%d,%.7f,0.001%n", n,
+                    45932.2002 - rm / ((n - delta) * (n - delta)) + 0.001 * r.nextGaussian()));
+        }
+        Path file = dir.resolve("sr-1d2.csv");
+        Files.writeString(file, b);
+        CliTest.Run text = CliTest.run("series", file.toString());
+        assertEquals(0, text.code(), text.err());
+        String summary = text.out().lines().findFirst().orElseThrow();
+        assertTrue(summary.contains("the choice of terms is UNSETTLED: see the notes"), summary);
+        // the chi-square probability with three digits (0.66 and 0.996 told apart)
+        assertTrue(summary.matches(".*\\(probability 0\\.\\d{3}\\).*"), summary);
+        assertTrue(text.err().contains("note: the choice of terms [2] is unsettled: the model with terms [3], which "
+                + "carries 0.4"), text.err());
+        assertTrue(text.err().contains("Quote the fit with the terms fixed (--terms 3, SeriesFitter.withTerms)"),
+                text.err());
+        JsonMapper json = JsonMapper.builder().build();
+        CliTest.Run run = CliTest.run("series", file.toString(), "--format", "json");
+        JsonNode fit = json.readTree(run.out().lines().findFirst().orElseThrow());
+        assertEquals("unsettled", fit.get("term_choice").asString());
+        CliTest.Run three = CliTest.run("series", file.toString(), "--format", "json", "--terms", "3");
+        assertEquals("one-model", json.readTree(three.out().lines().findFirst().orElseThrow()).get("term_choice")
+                .asString());
+        assertFalse(three.err().contains("unsettled"), three.err());
+
+        // both streams into one: the tables come first and end their line, then the notes on lines of their own
+        StringWriter both = new StringWriter();
+        PrintWriter writer = new PrintWriter(both);
+        assertEquals(0, Main.run(writer, writer, "series", file.toString(), "--predict", "15"));
+        String merged = both.toString();
+        int firstNote = merged.indexOf("note: ");
+        assertTrue(firstNote > merged.indexOf("models tried") && merged.charAt(firstNote - 1) == '\n', merged);
+        assertTrue(merged.lines().filter(l -> l.contains("note: ")).allMatch(l -> l.startsWith("note: ")), merged);
     }
 }
