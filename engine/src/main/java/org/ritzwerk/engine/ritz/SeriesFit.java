@@ -240,7 +240,17 @@ public final class SeriesFit {
     public record UnsettledTerms(List<Integer> terms, double weight, double limitPerCm, double limitUncertaintyPerCm,
             double limitShiftPerCm, double limitShiftInUncertainties, List<String> moved) {
 
-        /** Copies the list. */
+        /**
+         * Copies the lists.
+         *
+         * @param terms                     that model's terms per series
+         * @param weight                    its BIC weight
+         * @param limitPerCm                its limit, cm^-1
+         * @param limitUncertaintyPerCm     that limit's stated standard uncertainty, cm^-1
+         * @param limitShiftPerCm           its limit minus the chosen model's, cm^-1
+         * @param limitShiftInUncertainties that shift over the chosen model's stated limit uncertainty
+         * @param moved                     how it moves the coefficients, as text
+         */
         public UnsettledTerms {
             terms = List.copyOf(terms);
             moved = List.copyOf(moved);

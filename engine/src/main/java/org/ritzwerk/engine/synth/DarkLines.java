@@ -33,8 +33,11 @@ import java.util.function.IntPredicate;
  * <p>The lines are in index order. Immutable, thread-safe and {@link Serializable} (it travels in
  * a {@link SceneException}).
  *
+ * <p>The serialised form is not part of the API.
+ *
  * @param onGrid the number of the scene's lines whose centre lies on the grid, dark or not
  * @param lines  the dark ones among them, in index order (a copy is kept)
+ * @serial exclude
  */
 public record DarkLines(int onGrid, List<Line> lines) implements Serializable {
 
@@ -57,11 +60,18 @@ public record DarkLines(int onGrid, List<Line> lines) implements Serializable {
      * @param label      its label, as {@link Scene.Lines#label}
      * @param positionNm its centre in nm, in the axis medium, Doppler-shifted
      * @param cause      why it carries no light
+     * @serial exclude
      */
     public record Line(int index, String label, double positionNm, Cause cause) implements Serializable {
         private static final long serialVersionUID = 1L;
 
         /**
+         * Checks the components.
+         *
+         * @param index      the line's index in the scene's lines, 0 or more
+         * @param label      its label, not null
+         * @param positionNm its centre in nm
+         * @param cause      why it carries no light, not null
          * @throws NullPointerException     when the label or cause is null
          * @throws IllegalArgumentException when the index is negative
          */
@@ -75,6 +85,10 @@ public record DarkLines(int onGrid, List<Line> lines) implements Serializable {
     }
 
     /**
+     * Checks the components and copies the list.
+     *
+     * @param onGrid the number of the scene's lines on the grid, at least the number of dark ones
+     * @param lines  the dark ones, not null
      * @throws NullPointerException     when the list or one of its lines is null
      * @throws IllegalArgumentException when onGrid is negative or below the number of dark lines
      */
