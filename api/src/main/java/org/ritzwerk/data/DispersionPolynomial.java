@@ -164,8 +164,8 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
         double[] scale = new double[k];
         for (int i = 0; i < k; i++) {
             if (covariance[i][i] < 0) {
-                throw new IllegalArgumentException(which + "covariance entry (" + i + ", " + i + ") is a variance and must not "
-                        + "be negative, got " + covariance[i][i]);
+                throw new IllegalArgumentException(which + "covariance entry (" + i + ", " + i
+                        + ") is a variance and must not be negative, got " + covariance[i][i]);
             }
             scale[i] = Math.sqrt(covariance[i][i]);
             for (int j = 0; j < k; j++) {
@@ -185,8 +185,9 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
                 pivot -= l[j][m] * l[j][m];
             }
             if (pivot < -1e-9) {
-                throw new IllegalArgumentException("the " + which + "covariance is not positive semidefinite (a combination of the "
-                        + "coefficients would have a negative variance; pivot " + pivot + " at coefficient " + j + ")");
+                throw new IllegalArgumentException("the " + which + "covariance is not positive semidefinite (a "
+                        + "combination of the coefficients would have a negative variance; pivot " + pivot
+                        + " at coefficient " + j + ")");
             }
             double d = Math.sqrt(Math.max(pivot, 0));
             l[j][j] = d;
@@ -303,7 +304,7 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
         return "DispersionPolynomial[medium=" + medium.spec() + ", centrePixel=" + centrePixel + ", halfRange="
                 + halfRange + ", coefficients=" + Arrays.toString(coefficients) + ", covariance="
                 + Arrays.deepToString(covariance) + ", lowestPixel=" + lowestPixel + ", highestPixel=" + highestPixel
-                + ", higherDegreeCoefficients=" + Arrays.toString(higherDegreeCoefficients) + ", higherDegreeCovariance="
-                + Arrays.deepToString(higherDegreeCovariance) + "]";
+                + ", higherDegreeCoefficients=" + Arrays.toString(higherDegreeCoefficients)
+                + ", higherDegreeCovariance=" + Arrays.deepToString(higherDegreeCovariance) + "]";
     }
 }

@@ -143,7 +143,8 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withMedium(String mediumSpec) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, mediumSpec, minStrength, threshold,
                 tolerancePixels, minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm,
-                minDispersion, maxDispersion, secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
+                minDispersion, maxDispersion, secondOrder, requiredPrecision, resolvingPower, uncheckedEnds,
+                gain, readNoise);
     }
 
     /**

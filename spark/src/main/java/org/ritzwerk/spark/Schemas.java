@@ -222,7 +222,8 @@ public final class Schemas {
      * {@code higher_degree_coefficients} and {@code higher_degree_covariance} (a higher degree's
      * polynomial fitted to the same lines, b_0 .. b_e, and its (e + 1) x (e + 1) covariance row by
      * row: beyond the fitted range the stated uncertainty covers it, as the api's
-     * {@code DispersionPolynomial} keeps it), {@code lowest_pixel}, {@code highest_pixel}; quality: {@code rms_nm}, {@code rms_pixels},
+     * {@code DispersionPolynomial} keeps it), {@code lowest_pixel}, {@code highest_pixel}; quality:
+     * {@code rms_nm}, {@code rms_pixels},
      * {@code reduced_chi_square}, {@code lines_used}, {@code lines_rejected},
      * {@code peaks_found}, {@code strong_peaks}, {@code strong_matched},
      * {@code matched_fraction}, {@code coverage} (fraction of the detector between the outermost
