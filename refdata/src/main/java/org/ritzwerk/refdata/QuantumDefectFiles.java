@@ -480,12 +480,7 @@ public final class QuantumDefectFiles {
                         "limit-uncertainty must be >= 0 (in the limit's unit), got " + u,
                         header.get("limit-uncertainty")));
             } else if (!Double.isNaN(u) && LIMIT_UNITS.contains(unit)) {
-                limitUncertainty = switch (unit) {
-                    case "cm-1" -> u;
-                    case "GHz" -> u * 1e9 / (PhysicalConstants.C * 100);
-                    case "MHz" -> u * 1e6 / (PhysicalConstants.C * 100);
-                    default -> u * 1e3 / (PhysicalConstants.C * 100);
-                };
+                limitUncertainty = perCm(u, unit);
             }
         }
         Provenance.Kind provenanceKind = kind(header, headerLine, "provenance", source, problems);
@@ -589,12 +584,7 @@ public final class QuantumDefectFiles {
             try {
                 double value = Double.parseDouble(parts[0]);
                 if (Double.isFinite(value) && parts[0].matches("[-+]?\\d+(\\.\\d+)?")) {
-                    return switch (parts[1]) {
-                        case "cm-1" -> value;
-                        case "GHz" -> value * 1e9 / (PhysicalConstants.C * 100);
-                        case "MHz" -> value * 1e6 / (PhysicalConstants.C * 100);
-                        default -> value * 1e3 / (PhysicalConstants.C * 100);
-                    };
+                    return perCm(value, parts[1]);
                 }
             } catch (NumberFormatException e) {
                 // reported below
@@ -604,6 +594,16 @@ public final class QuantumDefectFiles {
                 + "number and one of the units " + String.join(", ", LIMIT_UNITS) + ", such as '1010029.1646 GHz'; got '"
                 + text + "'", text));
         return Double.NaN;
+    }
+
+    /** A value in one of {@link #LIMIT_UNITS} in cm^-1: frequencies divided by 100 c exactly. */
+    private static double perCm(double value, String unit) {
+        return switch (unit) {
+            case "cm-1" -> value;
+            case "GHz" -> value * 1e9 / (PhysicalConstants.C * 100);
+            case "MHz" -> value * 1e6 / (PhysicalConstants.C * 100);
+            default -> value * 1e3 / (PhysicalConstants.C * 100);
+        };
     }
 
     private static Provenance.Kind kind(Map<String, String> header, Map<String, Integer> lines, String key,
