@@ -521,21 +521,9 @@ final class SynthCommand implements Callable<Integer> {
      * (Boltzmann, Saha) too small to be held.
      */
     private List<String> unlit(DarkLines dark) {
-        String[] why = {
-            "their --lines intensity is 0" + (ions.species.isEmpty() ? "" : " (or so small beside the list's"
-                    + " strongest line that it vanishes when the list is scaled to the strongest one-electron line)"),
-            "their --lines intensities are so small beside the brightest line's that, scaled so the brightest"
-                    + " pixel expects --peak-counts, their counts are below the smallest number a double holds"
-                    + " (about 4.9e-324)",
-            "at --temperature " + OptionRules.show(temperature) + " K the Boltzmann populations of their upper"
-                    + " levels, exp(-E / kT), are below the smallest number a double holds (about 1e-308)"
-                    + (electronDensity == null ? "" : ", or the ionisation balance at --electron-density leaves no"
-                    + " emitters") + "; raise --temperature"};
-        DarkLines.Cause[] causes = {DarkLines.Cause.ZERO_INTENSITY, DarkLines.Cause.INTENSITY_UNDERFLOW,
-            DarkLines.Cause.POPULATION_UNDERFLOW};
         List<String> out = new ArrayList<>();
-        for (int kind = 0; kind < causes.length; kind++) {
-            List<DarkLines.Line> lines = dark.withCause(causes[kind]);
+        for (DarkLines.Cause cause : DarkLines.Cause.values()) {
+            List<DarkLines.Line> lines = dark.withCause(cause);
             if (lines.isEmpty()) {
                 continue;
             }
@@ -545,9 +533,25 @@ final class SynthCommand implements Callable<Integer> {
             }
             out.add(lines.size() + " of the " + dark.onGrid() + " lines inside the range "
                     + (lines.size() == 1 ? "carries" : "carry") + " no light (" + String.join(", ", first)
-                    + (lines.size() > first.size() ? ", ..." : "") + "): " + why[kind]);
+                    + (lines.size() > first.size() ? ", ..." : "") + "): " + why(cause));
         }
         return out;
+    }
+
+    /** Why lines of one cause carry no light, in the options' words. */
+    private String why(DarkLines.Cause cause) {
+        return switch (cause) {
+            case ZERO_INTENSITY -> "their --lines intensity is 0" + (ions.species.isEmpty() ? "" : " (or so small"
+                    + " beside the list's strongest line that it vanishes when the list is scaled to the strongest"
+                    + " one-electron line)");
+            case INTENSITY_UNDERFLOW -> "their --lines intensities are so small beside the brightest line's that,"
+                    + " scaled so the brightest pixel expects --peak-counts, their counts are below the smallest number"
+                    + " a double holds (about 4.9e-324)";
+            case POPULATION_UNDERFLOW -> "at --temperature " + OptionRules.show(temperature) + " K the Boltzmann"
+                    + " populations of their upper levels, exp(-E / kT), are below the smallest number a double holds"
+                    + " (about 1e-308)" + (electronDensity == null ? "" : ", or the ionisation balance at"
+                    + " --electron-density leaves no emitters") + "; raise --temperature";
+        };
     }
 
     /** Runs a builder step, naming the option when the engine refuses its value. */
