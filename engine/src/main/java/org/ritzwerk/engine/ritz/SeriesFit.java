@@ -611,8 +611,11 @@ public final class SeriesFit {
                     || (found != null && w[m] <= found.weight())) {
                 continue;
             }
-            List<String> moved = new ArrayList<>();
             double limitShift = t.parameters[0] - parameters[0];
+            if (!(Math.abs(limitShift) > UNSETTLED_SHIFT * chosenLimitU)) {
+                continue;
+            }
+            List<String> moved = new ArrayList<>();
             for (int s = 0; s < terms.length; s++) {
                 for (int k = 0; k < terms[s]; k++) {
                     double shift = t.parameters[first(t.terms, s) + k] - parameters[first(s) + k];
@@ -623,11 +626,9 @@ public final class SeriesFit {
                     }
                 }
             }
-            if (Math.abs(limitShift) > UNSETTLED_SHIFT * chosenLimitU) {
-                Candidate c = candidates.get(m);
-                found = new UnsettledTerms(c.terms(), w[m], c.limitPerCm(), c.limitUncertaintyPerCm(), limitShift,
-                        limitShift / chosenLimitU, moved);
-            }
+            Candidate c = candidates.get(m);
+            found = new UnsettledTerms(c.terms(), w[m], c.limitPerCm(), c.limitUncertaintyPerCm(), limitShift,
+                    limitShift / chosenLimitU, moved);
         }
         return Optional.ofNullable(found);
     }
