@@ -146,10 +146,10 @@ record GainEstimate(double value, double sigma, int fits, double freedom, boolea
         double[] own = new double[fits];
         int n = 0;
         for (int f = 0; f < fits; f++) {
-            double[] sums = pixels[f] == null || dof[f] <= 0 ? null : sums(pixels[f], assumed, assumed, counted);
+            Sums sums = pixels[f] == null || dof[f] <= 0 ? null : Sums.of(pixels[f], assumed, assumed, counted);
             if (sums != null) {
-                int k = (int) Math.max(1, Math.round(sums[4]));
-                own[n++] = sums[0] / sums[1] / PeakFinder.reducedChiSquareQuantile(0, k);
+                int k = (int) Math.max(1, Math.round(sums.freedom()));
+                own[n++] = sums.num() / sums.den() / PeakFinder.reducedChiSquareQuantile(0, k);
             }
         }
         if (n == 0) {
@@ -158,7 +158,7 @@ record GainEstimate(double value, double sigma, int fits, double freedom, boolea
         double select = Math.max(LOWEST, Math.min(HIGHEST, Baseline.median(own, n)));
         boolean[] use = new boolean[fits];
         for (int f = 0; f < fits; f++) {
-            if (pixels[f] == null || dof[f] <= 0 || sums(pixels[f], select, select, counted) == null) {
+            if (pixels[f] == null || dof[f] <= 0 || Sums.of(pixels[f], select, select, counted) == null) {
                 continue;
             }
             double[][] px = pixels[f];
@@ -169,15 +169,15 @@ record GainEstimate(double value, double sigma, int fits, double freedom, boolea
             use[f] = chiSquare / dof[f] <= PeakFinder.reducedChiSquareQuantile(Z999, dof[f]);
         }
         double g = select;
-        double[][] perFit = new double[fits][];
+        Sums[] perFit = new Sums[fits];
         for (int inner = 0; inner < 100; inner++) {
             double num = 0;
             double den = 0;
             for (int f = 0; f < fits; f++) {
-                perFit[f] = use[f] ? sums(pixels[f], g, select, counted) : null;
+                perFit[f] = use[f] ? Sums.of(pixels[f], g, select, counted) : null;
                 if (perFit[f] != null) {
-                    num += perFit[f][0];
-                    den += perFit[f][1];
+                    num += perFit[f].num();
+                    den += perFit[f].den();
                 }
             }
             if (!(den > 0)) {
@@ -191,34 +191,23 @@ record GainEstimate(double value, double sigma, int fits, double freedom, boolea
             }
         }
         int count = 0;
-        double num = 0;
-        double den = 0;
-        double scatter = 0;
-        int points = 0;
+        Sums all = Sums.NONE;
         double between = 0;
-        double freedom = 0;
-        double cube = 0;
-        double fourth = 0;
-        double squareE = 0;
         for (int f = 0; f < fits; f++) {
             if (perFit[f] != null) {
                 count++;
-                num += perFit[f][0];
-                den += perFit[f][1];
-                scatter += perFit[f][2];
-                points += (int) perFit[f][3];
-                freedom += perFit[f][4];
-                cube += perFit[f][5];
-                fourth += perFit[f][6];
-                squareE += perFit[f][7];
-                double d = perFit[f][0] - g * perFit[f][1];
+                all = all.plus(perFit[f]);
+                double d = perFit[f].num() - g * perFit[f].den();
                 between += d * d;
             }
         }
+        double num = all.num();
+        double den = all.den();
         if (count < MIN_FITS || !(den > 0)) {
             return new GainEstimate(Double.NaN, Double.NaN, count, Double.NaN, false);
         }
-        double overdispersion = points > 1 ? Math.max(1, scatter / (points - 1)) : 1;
+        int points = all.used();
+        double overdispersion = points > 1 ? Math.max(1, all.scatter() / (points - 1)) : 1;
         double model = overdispersion / den;
         double sandwich = count / (count - 1.0) * between / (den * den);
         double sigma = Math.sqrt(Math.max(model, sandwich));
@@ -226,13 +215,13 @@ record GainEstimate(double value, double sigma, int fits, double freedom, boolea
         // in proportion to the line's counts, so their squares grow as m^2 where the photon noise
         // grows as m: fitted as e = g m + c m^2, a c beyond SIGNIFICANCE of its standard
         // deviations says the excess is the profile's, and the estimate is not to be used.
-        double det = den * fourth - cube * cube;
+        double det = den * all.fourth() - all.cube() * all.cube();
         boolean profile = false;
         if (det > 0) {
-            double c = (den * squareE - cube * num) / det;
+            double c = (den * all.squareE() - all.cube() * num) / det;
             profile = c > SIGNIFICANCE * Math.sqrt(overdispersion * den / det);
         }
-        return new GainEstimate(g, sigma, count, freedom, profile);
+        return new GainEstimate(g, sigma, count, all.freedom(), profile);
     }
 
     /** A pixel's variance under gain g: background plus the line's photon noise, floored as in the fits. */
@@ -241,38 +230,48 @@ record GainEstimate(double value, double sigma, int fits, double freedom, boolea
     }
 
     /**
-     * One fit's weighted sums over its pixels dominated by the line under gain {@code select}, with
-     * weights under gain g: {sum w m e, sum w m^2, sum w (e - g m)^2, pixels, sum (1 - h),
-     * sum w m^3, sum w m^4, sum w m^2 e}, w = 1 / (2 V^2); null when it has no such pixel.
+     * Weighted sums over the pixels dominated by a line, with w = 1 / (2 V^2) and e a pixel's squared
+     * residual corrected for leverage, less its background variance.
+     *
+     * @param num     sum w m e
+     * @param den     sum w m^2
+     * @param scatter sum w (e - g m)^2
+     * @param used    pixels summed
+     * @param freedom sum (1 - h), their share of the degrees of freedom
+     * @param cube    sum w m^3
+     * @param fourth  sum w m^4
+     * @param squareE sum w m^2 e
      */
-    private static double[] sums(double[][] px, double g, double select, boolean counted) {
-        double num = 0;
-        double den = 0;
-        double scatter = 0;
-        int used = 0;
-        double freedom = 0;
-        double cube = 0;
-        double fourth = 0;
-        double squareE = 0;
-        for (int i = 0; i < px[0].length; i++) {
-            double m = px[0][i];
-            double h = px[2][i];
-            double b2 = px[3][i];
-            if (select * m < b2 || m < LEAST_ELECTRONS * select || !(h < MAX_LEVERAGE)) {
-                continue;
-            }
-            double v = variance(m, b2, g, counted);
-            double w = 1 / (2 * v * v);
-            double e = px[1][i] / (1 - h) - b2;
-            num += w * m * e;
-            den += w * m * m;
-            scatter += w * (e - g * m) * (e - g * m);
-            used++;
-            freedom += 1 - h;
-            cube += w * m * m * m;
-            fourth += w * m * m * m * m;
-            squareE += w * m * m * e;
+    private record Sums(double num, double den, double scatter, int used, double freedom, double cube,
+            double fourth, double squareE) {
+
+        static final Sums NONE = new Sums(0, 0, 0, 0, 0, 0, 0, 0);
+
+        Sums plus(Sums o) {
+            return new Sums(num + o.num, den + o.den, scatter + o.scatter, used + o.used, freedom + o.freedom,
+                    cube + o.cube, fourth + o.fourth, squareE + o.squareE);
         }
-        return used == 0 ? null : new double[] {num, den, scatter, used, freedom, cube, fourth, squareE};
+
+        /**
+         * One fit's sums over its pixels dominated by the line under gain {@code select}, with
+         * weights under gain g; null when it has no such pixel.
+         */
+        static Sums of(double[][] px, double g, double select, boolean counted) {
+            Sums sums = NONE;
+            for (int i = 0; i < px[0].length; i++) {
+                double m = px[0][i];
+                double h = px[2][i];
+                double b2 = px[3][i];
+                if (select * m < b2 || m < LEAST_ELECTRONS * select || !(h < MAX_LEVERAGE)) {
+                    continue;
+                }
+                double v = variance(m, b2, g, counted);
+                double w = 1 / (2 * v * v);
+                double e = px[1][i] / (1 - h) - b2;
+                sums = sums.plus(new Sums(w * m * e, w * m * m, w * (e - g * m) * (e - g * m), 1, 1 - h,
+                        w * m * m * m, w * m * m * m * m, w * m * m * e));
+            }
+            return sums.used == 0 ? null : sums;
+        }
     }
 }
