@@ -1,6 +1,7 @@
 package org.ritzwerk.cli;
 
 import java.io.PrintWriter;
+import java.util.ArrayList;
 import java.util.List;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
@@ -94,9 +95,10 @@ final class AlkaliTables {
 
     /**
      * The transition table: one row, with both states' lifetimes. The row is computed (which can
-     * take a while at high n) while {@code working} runs, which is closed before anything is written.
+     * take a while at high n) while {@code working} runs, which is closed before anything is written;
+     * a note on {@code err} after the table names the uncertainties not estimated.
      */
-    static void transition(AlkaliAtom atom, State a, State b, double temperature, PrintWriter out,
+    static void transition(AlkaliAtom atom, State a, State b, double temperature, PrintWriter out, PrintWriter err,
             Table.Format format, Progress.Running working) {
         if (!AlkaliLines.isElectricDipole(a, b)) {
             throw new OptionException("--transition: " + a.notation() + " and " + b.notation()
@@ -108,12 +110,16 @@ final class AlkaliTables {
         double vacuum = line.vacuumWavelengthMetres(0);
         boolean lowerIsGround = lower.equals(atom.groundState());
         double uHz = atom.frequencyUncertaintyHz(lower, upper).orElse(Double.NaN);
+        double uDipole = atom.reducedDipoleUncertainty(upper, lower).orElse(Double.NaN);
+        double uA = atom.einsteinAUncertainty(upper, lower).orElse(Double.NaN);
+        double uTauUpper = atom.radiativeLifetimeUncertainty(upper).orElse(Double.NaN);
+        double uTauLower = lowerIsGround ? 0 : atom.radiativeLifetimeUncertainty(lower).orElse(Double.NaN);
         Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequencyHz(0), uHz,
             vacuum * 1e9, line.vacuumWavelengthUncertaintyMetres(0).orElse(Double.NaN) * 1e9,
             air(vacuum) * 1e9, line.wavenumberPerCm(0), atom.reducedDipole(upper, lower),
-            line.einsteinA(0).getAsDouble(), line.oscillatorStrength(0).getAsDouble(), atom.radiativeLifetime(upper),
-            atom.effectiveLifetime(upper, temperature),
-            lowerIsGround ? null : atom.radiativeLifetime(lower),
+            uDipole, line.einsteinA(0).getAsDouble(), uA, line.oscillatorStrength(0).getAsDouble(),
+            atom.radiativeLifetime(upper), uTauUpper, atom.effectiveLifetime(upper, temperature),
+            lowerIsGround ? null : atom.radiativeLifetime(lower), lowerIsGround ? null : uTauLower,
             lowerIsGround ? null : atom.effectiveLifetime(lower, temperature), temperature};
         working.close();
         Table table = new Table(List.of(
@@ -127,15 +133,33 @@ final class AlkaliTables {
                 Table.Column.number("air_wavelength_nm", "air nm", "%.6f"),
                 Table.Column.number("wavenumber_per_cm", "cm-1", "%.6f"),
                 Table.Column.number("reduced_dipole_ea0", "<u||d||l> e a0", "%.5g"),
+                Table.Column.number("uncertainty_reduced_dipole_ea0", "u e a0", "%.2g"),
                 Table.Column.number("einstein_a_per_s", "A s-1", "%.4e"),
+                Table.Column.number("uncertainty_einstein_a_per_s", "u A s-1", "%.2g"),
                 Table.Column.number("oscillator_strength", "f", "%.4e"),
                 Table.Column.number("upper_lifetime_s", "tau_u s", "%.4e"),
+                Table.Column.number("uncertainty_upper_lifetime_s", "u tau_u s", "%.2g"),
                 Table.Column.number("upper_effective_lifetime_s", "tau_u(T) s", "%.4e"),
                 Table.Column.number("lower_lifetime_s", "tau_l s", "%.4e"),
+                Table.Column.number("uncertainty_lower_lifetime_s", "u tau_l s", "%.2g"),
                 Table.Column.number("lower_effective_lifetime_s", "tau_l(T) s", "%.4e"),
                 Table.Column.number("temperature_k", "T K", "%.1f")), out, format);
         table.add(row);
         table.finish();
+        String[] names = {"u Hz", "u e a0", "u A s-1", "u tau_u s", "u tau_l s"};
+        double[] values = {uHz, uDipole, uA, uTauUpper, uTauLower};
+        List<String> missing = new ArrayList<>();
+        for (int i = 0; i < names.length; i++) {
+            if (Double.isNaN(values[i])) {
+                missing.add(names[i]);
+            }
+        }
+        if (!missing.isEmpty()) {
+            err.println("note: " + String.join(", ", missing) + ": not estimated ('-', null in JSON); a dipole "
+                    + "element, its A and a lifetime carry one only where published elements decide them (the first p "
+                    + "levels of Na, K, Rb and Cs; Cs 5d and 7s), not where the Coulomb approximation computes them");
+            err.flush();
+        }
     }
 
     /** The ladder table: the two steps' wavelengths and frequencies, with their standard uncertainties. */

@@ -285,8 +285,8 @@ final class LinesCommand implements Callable<Integer> {
             // Both states' lifetimes sum over many states at high n: show a sign of life.
             try (Progress.Running running = Progress.ticking(spec.commandLine().getErr(), "lines: "
                     + atom.species().notation() + " " + transition + ": rates and lifetimes")) {
-                AlkaliTables.transition(atom, pair[0], pair[1], temperature, spec.commandLine().getOut(), format,
-                        running);
+                AlkaliTables.transition(atom, pair[0], pair[1], temperature, spec.commandLine().getOut(),
+                        spec.commandLine().getErr(), format, running);
             }
         } else {
             State[] states = AlkaliTables.ladder(ladder);

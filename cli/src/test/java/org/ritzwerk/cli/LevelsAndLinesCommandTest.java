@@ -181,6 +181,42 @@ class LevelsAndLinesCommandTest {
         assertTrue(cold.err().contains("a temperature from 0 (no black-body radiation) to below 1e5 K"), cold.err());
     }
 
+    /**
+     * lines --transition states the uncertainty of a dipole element, its A and the lifetimes where published
+     * elements decide them: Rb 5p3/2, 26.20(9) ns (S. Aubin et al., Phys. Rev. A 70, 042504 (2004), the
+     * built-in row's source); Cs 6p3/2 30.462(46) ns (B. M. Patterson et al., Phys. Rev. A 91, 012506
+     * (2015)). A Rydberg line's computed element has none: null, with a note.
+     */
+    @Test
+    void aTransitionStatesTheUncertaintyOfPublishedElementsAndSaysWhereThereIsNone() {
+        CliTest.Run d2 = CliTest.run("lines", "--species", "Rb-87 I", "--transition", "5s1/2 -> 5p3/2", "--format",
+                "json");
+        assertEquals(0, d2.code(), d2.err());
+        JsonNode row = new JsonMapper().readTree(d2.out().strip());
+        assertEquals(26.20e-9, row.get("upper_lifetime_s").asDouble(), 1e-13);
+        assertEquals(0.09e-9, row.get("uncertainty_upper_lifetime_s").asDouble(), 1e-15);
+        // A = 1 / tau for the level's only channel, so u(A) / A = u(tau) / tau
+        assertEquals(0.09 / 26.20, row.get("uncertainty_einstein_a_per_s").asDouble()
+                / row.get("einstein_a_per_s").asDouble(), 1e-9);
+        assertEquals(0.5 * 0.09 / 26.20, row.get("uncertainty_reduced_dipole_ea0").asDouble()
+                / Math.abs(row.get("reduced_dipole_ea0").asDouble()), 1e-9);
+        assertTrue(row.get("uncertainty_lower_lifetime_s").isNull(), row.toString());
+        assertTrue(!d2.err().contains("not estimated"), d2.err());
+        CliTest.Run cs = CliTest.run("lines", "--species", "Cs-133 I", "--transition", "6p3/2 -> 5d5/2", "--format",
+                "json");
+        JsonNode csRow = new JsonMapper().readTree(cs.out().strip());
+        assertEquals(0.046e-9, csRow.get("uncertainty_lower_lifetime_s").asDouble(), 1e-15, csRow.toString());
+        CliTest.Run rydberg = CliTest.run("lines", "--species", "Rb-87 I", "--transition", "50d5/2 -> 51p3/2",
+                "--format", "json");
+        JsonNode far = new JsonMapper().readTree(rydberg.out().strip());
+        for (String field : new String[] {"uncertainty_reduced_dipole_ea0", "uncertainty_einstein_a_per_s",
+            "uncertainty_upper_lifetime_s", "uncertainty_lower_lifetime_s"}) {
+            assertTrue(far.get(field).isNull(), field + " " + far);
+        }
+        assertTrue(rydberg.err().contains("note: u e a0, u A s-1, u tau_u s, u tau_l s: not estimated"),
+                rydberg.err());
+    }
+
     /** levels --help says what --lifetimes gives 2s: its two-photon and M1 decays are included (0.1216 s in H). */
     @Test
     void theLifetimesHelpSaysTwoPhotonDecayOf2sIsIncluded() {

@@ -85,7 +85,9 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * of them is not stated; core-polarization and hydrogenic levels have none (not estimated). A
  * transition combines its two levels' as independent, except two formula levels, whose shared
  * inputs are propagated together (the limit cancels; see {@link #frequencyUncertaintyHz}).
- * Dipole elements, rates and lifetimes carry no uncertainty.
+ * A dipole element, its Einstein A and a lifetime carry one only where published elements decide them
+ * ({@link #reducedDipoleUncertainty}, {@link #einsteinAUncertainty}, {@link #radiativeLifetimeUncertainty});
+ * computed elements, black-body rates and effective lifetimes have none (not estimated).
  *
  * <p><b>Accuracy</b> (see the tests): levels as good as the measured values and the fits (the
  * fits meet the measured levels within 0.1 cm^-1 from valid-from-n on); Rydberg-Rydberg dipole
@@ -1081,6 +1083,71 @@ public final class AlkaliAtom {
             throw new IllegalArgumentException(state + " has no dipole decay channel (is it the ground state?)");
         }
         return 1 / rate;
+    }
+
+    /**
+     * The standard uncertainty of {@link #reducedDipole} where a published element
+     * ({@link #withPublishedDipoles(List)}) gives it: the element's stated uncertainty.
+     *
+     * @param a first state
+     * @param b second state, with l differing by one
+     * @return {@code u(|<a||d||b>|)} in e a0, or empty for a computed element (not estimated)
+     * @throws RydbergException when l and l' do not differ by one
+     */
+    public OptionalDouble reducedDipoleUncertainty(State a, State b) {
+        checkDipole(a, b);
+        PublishedDipole given = published.get(pair(a, b));
+        return given == null ? OptionalDouble.empty() : OptionalDouble.of(given.uncertaintyBohr());
+    }
+
+    /**
+     * The standard uncertainty of {@link #einsteinA} where a published element gives it, to first order
+     * (GUM, JCGM 100:2008, eq. 10): A grows as |d|^2, so {@code u(A) = 2 A u(d) / |d|}. The frequency's
+     * uncertainty (parts in 1e9 and below) is left out.
+     *
+     * @param upper the upper state
+     * @param lower a lower state, with l differing by one
+     * @return u(A) in s^-1, or empty for a computed element (not estimated)
+     * @throws IllegalArgumentException when {@code lower} is not below {@code upper}
+     * @throws RydbergException         when l and l' do not differ by one, or a level is refused
+     */
+    public OptionalDouble einsteinAUncertainty(State upper, State lower) {
+        PublishedDipole given = published.get(pair(upper, lower));
+        double a = einsteinA(upper, lower);
+        if (given == null) {
+            return OptionalDouble.empty();
+        }
+        return OptionalDouble.of(2 * a * given.uncertaintyBohr() / given.reducedBohr());
+    }
+
+    /**
+     * The standard uncertainty of {@link #radiativeLifetime} where published elements decide every decay
+     * channel (the first p levels of the built-in atoms, whose only channel is the resonance line; Cs
+     * 5d and 7s): {@code tau = 1 / sum A_i}, so to first order {@code u(tau) = tau^2 sum u(A_i)}
+     * ({@link #einsteinAUncertainty}), the channels taken as fully correlated: the elements of one
+     * multiplet often share their source (the built-in Cs 5d3/2 pair is one element scaled by LS line
+     * strengths), and the linear sum bounds any correlation from above. A single channel taken from a
+     * measured lifetime gives that measurement's uncertainty back.
+     *
+     * @param state a state above the ground level
+     * @return u(tau) in seconds, or empty when any channel's element is computed (not estimated)
+     * @throws IllegalArgumentException for a state without a decay channel
+     * @throws RydbergException         when a level on the way is refused
+     */
+    public OptionalDouble radiativeLifetimeUncertainty(State state) {
+        double tau = radiativeLifetime(state);
+        double rateUncertainty = 0;
+        for (DecayChannel c : spontaneousChannels(state)) {
+            if (c.ratePerSecond() == 0) {
+                continue;
+            }
+            PublishedDipole given = published.get(pair(c.from(), c.to()));
+            if (given == null) {
+                return OptionalDouble.empty();
+            }
+            rateUncertainty += 2 * c.ratePerSecond() * given.uncertaintyBohr() / given.reducedBohr();
+        }
+        return OptionalDouble.of(tau * tau * rateUncertainty);
     }
 
     /**
