@@ -1,5 +1,6 @@
 package org.ritzwerk.refdata;
 
+import java.util.ArrayList;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Set;
@@ -28,16 +29,23 @@ import tools.jackson.core.JsonParser;
 import tools.jackson.core.JsonToken;
 import tools.jackson.core.type.WritableTypeId;
 import tools.jackson.databind.BeanDescription;
+import tools.jackson.databind.BeanProperty;
 import tools.jackson.databind.DatabindException;
 import tools.jackson.databind.DeserializationContext;
 import tools.jackson.databind.JacksonModule;
 import tools.jackson.databind.KeyDeserializer;
 import tools.jackson.databind.SerializationConfig;
 import tools.jackson.databind.SerializationContext;
+import tools.jackson.databind.ValueDeserializer;
 import tools.jackson.databind.ValueSerializer;
+import tools.jackson.databind.deser.jdk.NumberDeserializers;
+import tools.jackson.databind.jsontype.TypeDeserializer;
+import tools.jackson.databind.type.LogicalType;
+import tools.jackson.databind.util.AccessPattern;
 import tools.jackson.databind.deser.std.StdDeserializer;
 import tools.jackson.databind.exc.InvalidFormatException;
 import tools.jackson.databind.exc.MismatchedInputException;
+import tools.jackson.databind.ser.BeanPropertyWriter;
 import tools.jackson.databind.jsontype.TypeSerializer;
 import tools.jackson.databind.module.SimpleModule;
 import tools.jackson.databind.ser.ValueSerializerModifier;
@@ -89,6 +97,13 @@ import tools.jackson.databind.ser.std.ToEmptyObjectSerializer;
  * whatever the type's factory refuses (a negative wavelength, a negative uncertainty). Writing
  * refuses an air model of a third party whose spec does not read back into an equal model (the
  * built-in {@link AirModels} parser knows only the built-in models).
+ *
+ * <p><b>Not estimated.</b> A Ritzwerk record's double component that holds NaN for "not estimated"
+ * (the uncertainty of a {@code Level}, for example) is written as JSON {@code null}, never as Jackson's
+ * default {@code "NaN"}; reading such a record takes {@code null} back as NaN, so the record's own
+ * constructor decides whether that component may be unknown, and refuses a record whose double
+ * component is missing altogether (Jackson alone would read it as 0, an uncertainty of zero).
+ * Doubles of other classes, the caller's own included, keep Jackson's behaviour.
  *
  * <p>A Ritzwerk class without a JSON shape (results such as {@code LineSet}, {@code Calibration},
  * {@code PeakList}, whose accessors are not getters) is refused on writing with a
@@ -168,6 +183,8 @@ public final class RitzwerkJackson {
                         unknownUnit(symbol)))));
 
         module.setSerializerModifier(new NoEmptyObjects());
+        module.addDeserializer(Double.TYPE, new NotEstimatedDouble(Double.TYPE, null));
+        module.addDeserializer(Double.class, new NotEstimatedDouble(Double.class, null));
         return module;
     }
 
@@ -330,6 +347,111 @@ public final class RitzwerkJackson {
                 return new NoShapeSerializer(type);
             }
             return serializer;
+        }
+
+        @Override
+        public List<BeanPropertyWriter> changeProperties(SerializationConfig config,
+                BeanDescription.Supplier beanDesc, List<BeanPropertyWriter> properties) {
+            if (!ritzwerk(beanDesc.getBeanClass())) {
+                return properties;
+            }
+            List<BeanPropertyWriter> out = new ArrayList<>(properties.size());
+            for (BeanPropertyWriter w : properties) {
+                Class<?> raw = w.getType().getRawClass();
+                boolean floating = raw == double.class || raw == Double.class || raw == float.class
+                        || raw == Float.class;
+                out.add(floating ? new NotEstimatedAsNull(w) : w);
+            }
+            return out;
+        }
+    }
+
+    /** Whether a class is one of Ritzwerk's own (whose NaN doubles mean "not estimated"). */
+    private static boolean ritzwerk(Class<?> type) {
+        return type != null && type.getName().startsWith("org.ritzwerk.");
+    }
+
+    /** Writes a NaN double of a Ritzwerk class as null ("not estimated"), never as "NaN". */
+    private static final class NotEstimatedAsNull extends BeanPropertyWriter {
+        private static final long serialVersionUID = 1L;
+
+        NotEstimatedAsNull(BeanPropertyWriter base) {
+            super(base);
+        }
+
+        @Override
+        public void serializeAsProperty(Object bean, JsonGenerator g, SerializationContext ctxt) throws Exception {
+            Object value = get(bean);
+            if (value instanceof Double d && d.isNaN() || value instanceof Float f && f.isNaN()) {
+                if (!_suppressNulls) {
+                    g.writeName(_name);
+                    g.writeNull();
+                }
+                return;
+            }
+            super.serializeAsProperty(bean, g, ctxt);
+        }
+    }
+
+    /**
+     * Reads a double the standard way, except a component of a Ritzwerk class: there null is NaN ("not
+     * estimated"; the class's constructor decides whether that is allowed) and a missing one is refused.
+     */
+    private static final class NotEstimatedDouble extends StdDeserializer<Double> {
+        private static final long serialVersionUID = 1L;
+
+        /** Jackson's own deserializer of the type, which reads every value. */
+        private final ValueDeserializer<?> standard;
+        /** The Ritzwerk property this instance reads, or null for the standard behaviour. */
+        private final BeanProperty property;
+
+        NotEstimatedDouble(Class<?> type, BeanProperty property) {
+            super(type);
+            this.standard = NumberDeserializers.find(type);
+            this.property = property;
+        }
+
+        @Override
+        public ValueDeserializer<?> createContextual(DeserializationContext ctxt, BeanProperty property) {
+            if (property != null && property.getMember() != null
+                    && ritzwerk(property.getMember().getDeclaringClass())) {
+                return new NotEstimatedDouble(handledType(), property);
+            }
+            return standard;
+        }
+
+        @Override
+        public Double deserialize(JsonParser p, DeserializationContext ctxt) {
+            return (Double) standard.deserialize(p, ctxt);
+        }
+
+        @Override
+        public Object deserializeWithType(JsonParser p, DeserializationContext ctxt, TypeDeserializer typeDeserializer) {
+            return standard.deserializeWithType(p, ctxt, typeDeserializer);
+        }
+
+        @Override
+        public AccessPattern getNullAccessPattern() {
+            return AccessPattern.DYNAMIC;
+        }
+
+        @Override
+        public Object getNullValue(DeserializationContext ctxt) {
+            return property == null ? standard.getNullValue(ctxt) : Double.NaN;
+        }
+
+        @Override
+        public Object getAbsentValue(DeserializationContext ctxt) {
+            if (property == null) {
+                return standard.getAbsentValue(ctxt);
+            }
+            return ctxt.reportInputMismatch(this, "%s field \"%s\" is missing (write null for a value that is not "
+                    + "estimated)", property.getMember().getDeclaringClass().getSimpleName(), property.getName());
+        }
+
+        @Override
+        public LogicalType logicalType() {
+            return LogicalType.Float;
         }
     }
 

@@ -8,6 +8,7 @@ import static org.quicktheories.generators.SourceDSL.doubles;
 import static org.quicktheories.generators.SourceDSL.integers;
 import static org.quicktheories.generators.SourceDSL.longs;
 
+import java.util.DoubleSummaryStatistics;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -39,6 +40,7 @@ import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.quantity.Wavelength;
 import org.ritzwerk.quantity.Wavenumber;
 import tools.jackson.core.JacksonException;
+import tools.jackson.core.type.TypeReference;
 import tools.jackson.core.json.JsonReadFeature;
 import tools.jackson.databind.DatabindException;
 import tools.jackson.databind.DefaultTyping;
@@ -82,6 +84,40 @@ class RitzwerkJacksonTest {
         assertThrows(DatabindException.class, () -> json.writeValueAsString(new Holder(grid)));
         // A user's own empty class keeps Jackson's behaviour.
         assertEquals("{}", json.writeValueAsString(new Object()));
+    }
+
+    /**
+     * A Ritzwerk record's "not estimated" NaN is written as null and read back as NaN, and a missing double
+     * component is refused; Jackson alone writes "NaN" and reads a missing component as 0 (an uncertainty
+     * of zero). Other classes keep Jackson's behaviour.
+     */
+    @Test
+    void aNotEstimatedDoubleIsWrittenAsNullAndAMissingOneIsRefused() {
+        Level none = new Level(State.parse("60s1/2"), 33690.9, 56.86, LevelOrigin.HYDROGENIC);
+        String text = json.writeValueAsString(none);
+        assertEquals("{\"state\":\"60s1/2\",\"energyPerCm\":33690.9,\"effectiveN\":56.86,\"origin\":\"HYDROGENIC\","
+                + "\"uncertaintyPerCm\":null}", text);
+        assertTrue(JsonMapper.builder().build().writeValueAsString(none).contains("\"NaN\""), "Jackson alone");
+        Level back = json.readValue(text, Level.class);
+        assertTrue(back.energyUncertaintyPerCm().isEmpty(), back.toString());
+        assertEquals(none, back);
+        Level stated = new Level(State.parse("5p3/2"), 12816.549389, 3.7, LevelOrigin.MEASURED, 3.7e-7);
+        assertEquals(stated, json.readValue(json.writeValueAsString(stated), Level.class));
+        String missing = "{\"state\":\"60s1/2\",\"energyPerCm\":33690.9,\"effectiveN\":56.86,\"origin\":\"HYDROGENIC\"}";
+        DatabindException e = assertThrows(DatabindException.class, () -> json.readValue(missing, Level.class));
+        assertTrue(e.getOriginalMessage().contains("Level field \"uncertaintyPerCm\" is missing (write null for a "
+                + "value that is not estimated)"), e.getOriginalMessage());
+        // the record's own constructor still decides what it takes: a negative uncertainty is refused
+        assertThrows(DatabindException.class, () -> json.readValue(missing.replace("}", ",\"uncertaintyPerCm\":-1}"),
+                Level.class));
+        // other classes keep Jackson's behaviour: a NaN written as "NaN", a null map value read as null
+        DoubleSummaryStatistics stats = new DoubleSummaryStatistics();
+        stats.accept(Double.NaN);
+        assertTrue(json.writeValueAsString(stats).contains("\"sum\":\"NaN\""), json.writeValueAsString(stats));
+        Map<String, Double> map = json.readValue("{\"a\":null,\"b\":2.5}", new TypeReference<Map<String, Double>>() {
+        });
+        assertTrue(map.containsKey("a") && map.get("a") == null && map.get("b") == 2.5, map.toString());
+        assertEquals(2.5, json.readValue("2.5", Double.class));
     }
 
     // ---- Fixed examples: the documented shape, character for character. The expected texts are the
