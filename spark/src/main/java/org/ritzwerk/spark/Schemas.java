@@ -403,6 +403,31 @@ public final class Schemas {
             required("code", DataTypes.StringType),
             required("message", DataTypes.StringType));
 
+    /**
+     * The problems {@link SurveyIdentification#validatePeakRows} finds in a {@link #PEAK_ROWS}
+     * table, one row per refused peak row: the columns of {@link #PROBLEMS} with the row's
+     * {@code peak} after {@code id} and its {@code value} after {@code field}. {@code id} string,
+     * nullable (the spectrum; null for a row whose id is null, and for a schema problem);
+     * {@code peak} int, nullable (the row's peak index as given; null when it is null, and for a
+     * schema problem); {@code field} string, nullable (the column: {@code id}, {@code peak},
+     * {@code position}, {@code sigma}, {@code intensity} or {@code width}; the column of a schema
+     * problem); {@code value} double, nullable (the refused value of a {@code position},
+     * {@code sigma}, {@code intensity} or {@code width} exactly as given, NaN and infinities
+     * included, which is the one place an output table holds them; null when that value is null,
+     * and for a problem of the {@code id} or {@code peak}); {@code code} string
+     * ({@link SparkRowException#BAD_FIELD}, or {@link SparkRowException#BAD_SCHEMA} for a missing
+     * or mistyped column); {@code message} string (the message of the {@link SparkRowException}
+     * that {@link SurveyIdentification#peakLists} fails with on that row, e.g. {@code row 'e',
+     * field 'sigma': peak 1 has -0.001; a sigma must be finite and at least 0}).
+     */
+    public static final StructType PEAK_ROW_PROBLEMS = struct(
+            optional("id", DataTypes.StringType),
+            optional("peak", DataTypes.IntegerType),
+            optional("field", DataTypes.StringType),
+            optional("value", DataTypes.DoubleType),
+            required("code", DataTypes.StringType),
+            required("message", DataTypes.StringType));
+
     private static StructField[] concat(StructField[] a, StructField[] b) {
         StructField[] all = new StructField[a.length + b.length];
         System.arraycopy(a, 0, all, 0, a.length);
