@@ -368,6 +368,25 @@ public final class Schemas {
             required("counts_in_pixels", DataTypes.DoubleType));
 
     /**
+     * The lines of a synthetic spectrum that lie on its grid but carry no light (the engine's
+     * {@code SyntheticSpectrum.darkLines()}, a {@code DarkLines}): {@code on_grid} (the scene's
+     * lines whose centre lies on the grid, ends included, dark or not), {@code dark} (how many of
+     * them carry no light: their counts are 0), and that number split by cause, one column per
+     * {@code DarkLines.Cause} in lower case: {@code zero_intensity} (a line list gave intensity 0,
+     * or one that became 0 when the list was scaled to the one-electron ions),
+     * {@code intensity_underflow} (a line list gave a rate above 0, but its counts scaled to the
+     * scene's peak counts are below the smallest double), {@code population_underflow} (the scene
+     * computed the rate, Boltzmann population and Saha balance, and it or its scaled counts are
+     * below the smallest double: too cold, or no emitters left). The three sum to {@code dark}.
+     */
+    public static final StructType DARK_LINES = struct(
+            required("on_grid", DataTypes.IntegerType),
+            required("dark", DataTypes.IntegerType),
+            required("zero_intensity", DataTypes.IntegerType),
+            required("intensity_underflow", DataTypes.IntegerType),
+            required("population_underflow", DataTypes.IntegerType));
+
+    /**
      * Synthesis output, one row per scene: {@code id}; {@code counts} (with noise, one per pixel
      * of the grid in {@link SynthesisParameters}); {@code expected_counts} (without noise);
      * {@code lines} (the truth, array of {@link #TRUE_LINE}); {@code failure_code} and
@@ -376,7 +395,10 @@ public final class Schemas {
      * notes: Stark widths drawn only for some lines, Balmer lines merged by the density, ...; and
      * settings away from their defaults that do nothing for the scene, such as a level model for a
      * scene without one-electron ions; empty when there is nothing to say, null for a refused
-     * scene).
+     * scene); {@code dark_lines} ({@link #DARK_LINES}: how many lines on the grid carry no light,
+     * by cause, so that {@code where("dark_lines.dark > 0")} finds the scenes with dark lines and
+     * {@code dark_lines.population_underflow > 0} those too cold for some of their lines; null for
+     * a refused scene, as the other result columns).
      */
     public static final StructType SPECTRA = struct(
             required("id", DataTypes.StringType),
@@ -385,7 +407,8 @@ public final class Schemas {
             optional("lines", DataTypes.createArrayType(TRUE_LINE, false)),
             optional("failure_code", DataTypes.StringType),
             optional("failure", DataTypes.StringType),
-            optional("notes", STRINGS));
+            optional("notes", STRINGS),
+            optional("dark_lines", DARK_LINES));
 
     /**
      * The problems the operations' {@code validate} methods find in an input table, one row per
