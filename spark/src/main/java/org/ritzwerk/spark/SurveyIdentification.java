@@ -354,7 +354,7 @@ public final class SurveyIdentification {
     }
 
     /**
-     * The problems of one spectrum's peak rows ({@link #validatePeakRows}): its id, then its rows
+     * The problems of one spectrum's peak rows ({@link SurveyIdentification#validatePeakRows}): its id, then its rows
      * (peak, position, sigma, intensity, width) in any order; each problem a
      * {@link Schemas#PEAK_ROW_PROBLEMS} row.
      */
