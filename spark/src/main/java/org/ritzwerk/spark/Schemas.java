@@ -10,7 +10,8 @@ import org.apache.spark.sql.types.StructType;
  * The tables the operations read and write. Input tables need the named columns with these
  * types (other columns are ignored; column order is free); output tables have exactly these
  * columns in this order. Doubles that a job leaves undefined (a residual of an unexplained peak,
- * a presence without strong lines) are null, never NaN.
+ * a presence without strong lines) are null, never NaN; the one NaN an output holds is an input's
+ * own, echoed as the refused {@code value} of a {@link #PEAK_ROW_PROBLEMS} row.
  *
  * <p><b>Input schemas are nullable.</b> {@link #PEAK_LISTS}, {@link #PEAK_ROWS},
  * {@link #EXPOSURES}, {@link #SCIENCE} and {@link #SCENES} declare every column and every array
