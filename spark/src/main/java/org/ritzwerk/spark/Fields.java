@@ -98,6 +98,11 @@ final class Fields implements Serializable {
         return names[field];
     }
 
+    /** @return the table's own name of the field's column (its case may differ), or null when it is absent */
+    String column(int field) {
+        return columns[field];
+    }
+
     /** @return the row's id (field 0, a required string) */
     String id(Row row) {
         Object id = row.get(index[0]);

@@ -10,7 +10,8 @@ import org.apache.spark.sql.types.StructType;
  * The tables the operations read and write. Input tables need the named columns with these
  * types (other columns are ignored; column order is free); output tables have exactly these
  * columns in this order. Doubles that a job leaves undefined (a residual of an unexplained peak,
- * a presence without strong lines) are null, never NaN.
+ * a presence without strong lines) are null, never NaN; the one NaN an output holds is an input's
+ * own, echoed as the refused {@code value} of a {@link #PEAK_ROW_PROBLEMS} row.
  *
  * <p><b>Input schemas are nullable.</b> {@link #PEAK_LISTS}, {@link #PEAK_ROWS},
  * {@link #EXPOSURES}, {@link #SCIENCE} and {@link #SCENES} declare every column and every array
@@ -368,6 +369,25 @@ public final class Schemas {
             required("counts_in_pixels", DataTypes.DoubleType));
 
     /**
+     * The lines of a synthetic spectrum that lie on its grid but carry no light (the engine's
+     * {@code SyntheticSpectrum.darkLines()}, a {@code DarkLines}): {@code on_grid} (the scene's
+     * lines whose centre lies on the grid, ends included, dark or not), {@code dark} (how many of
+     * them carry no light: their counts are 0), and that number split by cause, one column per
+     * {@code DarkLines.Cause} in lower case: {@code zero_intensity} (a line list gave intensity 0,
+     * or one that became 0 when the list was scaled to the one-electron ions),
+     * {@code intensity_underflow} (a line list gave a rate above 0, but its counts scaled to the
+     * scene's peak counts are below the smallest double), {@code population_underflow} (the scene
+     * computed the rate, Boltzmann population and Saha balance, and it or its scaled counts are
+     * below the smallest double: too cold, or no emitters left). The three sum to {@code dark}.
+     */
+    public static final StructType DARK_LINES = struct(
+            required("on_grid", DataTypes.IntegerType),
+            required("dark", DataTypes.IntegerType),
+            required("zero_intensity", DataTypes.IntegerType),
+            required("intensity_underflow", DataTypes.IntegerType),
+            required("population_underflow", DataTypes.IntegerType));
+
+    /**
      * Synthesis output, one row per scene: {@code id}; {@code counts} (with noise, one per pixel
      * of the grid in {@link SynthesisParameters}); {@code expected_counts} (without noise);
      * {@code lines} (the truth, array of {@link #TRUE_LINE}); {@code failure_code} and
@@ -376,7 +396,10 @@ public final class Schemas {
      * notes: Stark widths drawn only for some lines, Balmer lines merged by the density, ...; and
      * settings away from their defaults that do nothing for the scene, such as a level model for a
      * scene without one-electron ions; empty when there is nothing to say, null for a refused
-     * scene).
+     * scene); {@code dark_lines} ({@link #DARK_LINES}: how many lines on the grid carry no light,
+     * by cause, so that {@code where("dark_lines.dark > 0")} finds the scenes with dark lines and
+     * {@code dark_lines.population_underflow > 0} those too cold for some of their lines; null for
+     * a refused scene, as the other result columns).
      */
     public static final StructType SPECTRA = struct(
             required("id", DataTypes.StringType),
@@ -385,7 +408,8 @@ public final class Schemas {
             optional("lines", DataTypes.createArrayType(TRUE_LINE, false)),
             optional("failure_code", DataTypes.StringType),
             optional("failure", DataTypes.StringType),
-            optional("notes", STRINGS));
+            optional("notes", STRINGS),
+            optional("dark_lines", DARK_LINES));
 
     /**
      * The problems the operations' {@code validate} methods find in an input table, one row per
@@ -400,6 +424,31 @@ public final class Schemas {
     public static final StructType PROBLEMS = struct(
             optional("id", DataTypes.StringType),
             optional("field", DataTypes.StringType),
+            required("code", DataTypes.StringType),
+            required("message", DataTypes.StringType));
+
+    /**
+     * The problems {@link SurveyIdentification#validatePeakRows} finds in a {@link #PEAK_ROWS}
+     * table, one row per refused peak row: the columns of {@link #PROBLEMS} with the row's
+     * {@code peak} after {@code id} and its {@code value} after {@code field}. {@code id} string,
+     * nullable (the spectrum; null for a row whose id is null, and for a schema problem);
+     * {@code peak} int, nullable (the row's peak index as given; null when it is null, and for a
+     * schema problem); {@code field} string, nullable (the column: {@code id}, {@code peak},
+     * {@code position}, {@code sigma}, {@code intensity} or {@code width}; the column of a schema
+     * problem); {@code value} double, nullable (the refused value of a {@code position},
+     * {@code sigma}, {@code intensity} or {@code width} exactly as given, NaN and infinities
+     * included, which is the one place an output table holds them; null when that value is null,
+     * and for a problem of the {@code id} or {@code peak}); {@code code} string
+     * ({@link SparkRowException#BAD_FIELD}, or {@link SparkRowException#BAD_SCHEMA} for a missing
+     * or mistyped column); {@code message} string (the message of the {@link SparkRowException}
+     * that {@link SurveyIdentification#peakLists} fails with on that row, e.g. {@code row 'e',
+     * field 'sigma': peak 1 has -0.001; a sigma must be finite and at least 0}).
+     */
+    public static final StructType PEAK_ROW_PROBLEMS = struct(
+            optional("id", DataTypes.StringType),
+            optional("peak", DataTypes.IntegerType),
+            optional("field", DataTypes.StringType),
+            optional("value", DataTypes.DoubleType),
             required("code", DataTypes.StringType),
             required("message", DataTypes.StringType));
 

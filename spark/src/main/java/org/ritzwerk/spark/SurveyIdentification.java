@@ -11,11 +11,15 @@ import static org.apache.spark.sql.functions.udf;
 import static org.apache.spark.sql.functions.when;
 
 import java.util.Arrays;
+import java.util.Iterator;
 import java.util.List;
 import java.util.Objects;
+import org.apache.spark.api.java.function.FlatMapFunction;
 import org.apache.spark.sql.Column;
 import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Encoders;
 import org.apache.spark.sql.Row;
+import org.apache.spark.sql.RowFactory;
 import org.apache.spark.sql.api.java.UDF2;
 import org.apache.spark.sql.api.java.UDF6;
 import org.apache.spark.sql.catalyst.InternalRow;
@@ -23,6 +27,7 @@ import org.apache.spark.sql.catalyst.expressions.UnsafeRow;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeArrayWriter;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeRowWriter;
 import org.apache.spark.sql.types.DataTypes;
+import org.apache.spark.sql.types.StructField;
 import org.apache.spark.unsafe.types.UTF8String;
 import org.ritzwerk.RitzwerkException;
 import org.ritzwerk.atom.Species;
@@ -148,17 +153,20 @@ public final class SurveyIdentification {
      *         where it is given, so a spectrum never loses a column to a bad value); two rows of
      *         one id with the same peak (the order would be undefined); peaks of a spectrum that
      *         do not run 0, 1, 2, ... (the identified peaks' numbers would not be the input's).
-     *         Two peaks at the same position are allowed, as in a peak list.
+     *         Two peaks at the same position are allowed, as in a peak list. An absent sigma,
+     *         intensity or width column is taken as nulls. {@link #validatePeakRows} lists every
+     *         row refused here, without failing.
      * @throws SparkRowException ({@link SparkRowException#BAD_SCHEMA}) when a column is missing or
      *                           has another type
      */
     public static Dataset<Row> peakLists(Dataset<Row> peakRows) {
-        Fields.of(peakRows.schema(), Schemas.PEAK_ROWS_COLUMNS, "peak-row");
+        Dataset<Row> rows = peakRows.select(peakRowColumns(peakRows, Fields.of(peakRows.schema(),
+                Schemas.PEAK_ROWS_COLUMNS, "peak-row")));
         // Each row is checked as it enters the grouping, as part of the position the arrays are made
         // of, so that no use of the peak lists escapes it.
         Column checked = udf(new PeakRowCheck(), DataTypes.BooleanType).apply(col("id"), col("peak"), col("position"),
                 col("sigma"), col("intensity"), col("width"));
-        Dataset<Row> grouped = peakRows.groupBy(col("id")).agg(sort_array(collect_list(struct(col("peak"),
+        Dataset<Row> grouped = rows.groupBy(col("id")).agg(sort_array(collect_list(struct(col("peak"),
                 when(checked, col("position")).as("position"), col("sigma"), col("intensity"), col("width"))))
                 .as("p"));
         // The check is part of the positions column, so that no use of the peak lists escapes it.
@@ -166,6 +174,66 @@ public final class SurveyIdentification {
         return grouped.select(col("id"), when(unique, col("p").getField("position")).as("positions"),
                 whole(col("p"), "sigma", "sigmas"), whole(col("p"), "intensity", "intensities"),
                 whole(col("p"), "width", "widths")).to(Schemas.PEAK_LISTS);
+    }
+
+    /**
+     * Every peak row {@link #peakLists} would refuse, found in one pass without failing: the same
+     * schema check and the same checks of each row and of each spectrum's peak numbers, each
+     * refusal returned as a row. A pipeline drops or fixes the rows (or the spectra) it lists, and
+     * then groups the rest with {@code peakLists}; {@link #validate} then finds what
+     * {@link #identify} would refuse in the peak lists (a k-sigma tolerance without sigmas, say).
+     *
+     * <p>One row per peak row that is refused, with the first problem {@code peakLists} names for
+     * it, in its order: a null id; a null peak; a null position, then a position that is not finite
+     * or not above 0; a sigma, an intensity, a width that is given but not finite or below 0; then,
+     * counted over the rows of the spectrum whose id and peak are given, a peak whose place among
+     * the spectrum's distinct peaks in ascending order is not its number (the numbering 0, 1, 2,
+     * ... has a gap before it, or starts elsewhere; after a gap every later peak is out of place
+     * too, and each is listed, since each would carry another number once renumbered); and a peak
+     * given by more than one row of the spectrum (each of those rows listed). The first row of a spectrum whose
+     * place is not its number, and each row of a repeated peak, carry exactly the message
+     * {@code peakLists} fails with for that spectrum when that is its first problem; so does each
+     * row's own problem. A row's second problem (a NaN sigma and a NaN width) is found once the
+     * first is fixed.
+     *
+     * <p>Dropping the spectra listed (a left anti join on {@code id}) leaves a table that
+     * {@code peakLists} groups without refusal. Dropping only the rows listed can leave a gap in a
+     * spectrum's numbering (both rows of a repeated peak go): validate again, or renumber.
+     *
+     * @param peakRows a table with the columns of {@link Schemas#PEAK_ROWS}
+     * @return the problems, {@link Schemas#PEAK_ROW_PROBLEMS} (lazy; the spectra are grouped by
+     *         their ids in a shuffle, as by {@code peakLists}): empty when {@code peakLists} would
+     *         refuse no row; a single row (code {@link SparkRowException#BAD_SCHEMA}, id and peak
+     *         null) for a missing or mistyped column
+     * @throws IllegalArgumentException when the table is streaming
+     */
+    public static Dataset<Row> validatePeakRows(Dataset<Row> peakRows) {
+        Setups.requireBatch(peakRows, "peak-row");
+        Fields fields;
+        try {
+            fields = Fields.of(peakRows.schema(), Schemas.PEAK_ROWS_COLUMNS, "peak-row");
+        } catch (SparkRowException e) {
+            return peakRows.sparkSession().createDataFrame(List.of(RowFactory.create(e.rowId(), null, e.field(),
+                    null, e.code(), e.getMessage())), Schemas.PEAK_ROW_PROBLEMS);
+        }
+        return peakRows.select(peakRowColumns(peakRows, fields)).groupBy(col("id"))
+                .agg(collect_list(struct(col("peak"), col("position"), col("sigma"), col("intensity"), col("width")))
+                        .as("p"))
+                .flatMap(new PeakRowProblems(), Encoders.row(Schemas.PEAK_ROW_PROBLEMS));
+    }
+
+    /**
+     * @return the columns of {@link Schemas#PEAK_ROWS} under their documented names, whatever their
+     *         case in the table; an absent optional column (sigma, intensity, width) as nulls
+     */
+    private static Column[] peakRowColumns(Dataset<Row> peakRows, Fields fields) {
+        StructField[] wanted = Schemas.PEAK_ROWS_COLUMNS.fields();
+        Column[] columns = new Column[wanted.length];
+        for (int k = 0; k < wanted.length; k++) {
+            String own = fields.column(k);
+            columns[k] = (own == null ? lit(null).cast(wanted[k].dataType()) : peakRows.col(own)).as(wanted[k].name());
+        }
+        return columns;
     }
 
     /**
@@ -177,33 +245,50 @@ public final class SurveyIdentification {
 
         @Override
         public Boolean call(String id, Integer peak, Double position, Double sigma, Double intensity, Double width) {
+            SparkRowException problem = problem(id, peak, position, sigma, intensity, width);
+            if (problem != null) {
+                throw problem;
+            }
+            return Boolean.TRUE;
+        }
+
+        /** @return the row's first problem, or null when the row is well-formed */
+        static SparkRowException problem(String id, Integer peak, Double position, Double sigma, Double intensity,
+                Double width) {
             if (id == null) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, null, "id", "a peak row's id is null (peak "
+                return new SparkRowException(SparkRowException.BAD_FIELD, null, "id", "a peak row's id is null (peak "
                         + peak + ", position " + position + "); each peak row needs the id of its spectrum");
             }
             if (peak == null) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "is null in one of this"
+                return new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "is null in one of this"
                         + " spectrum's peak rows (position " + position + "); each peak row needs its index in the"
                         + " spectrum");
             }
             if (position == null) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, id, "position", "peak " + peak + " has"
+                return new SparkRowException(SparkRowException.BAD_FIELD, id, "position", "peak " + peak + " has"
                         + " none; each peak needs a position");
             }
-            check(id, peak, "position", position, true);
-            check(id, peak, "sigma", sigma, false);
-            check(id, peak, "intensity", intensity, false);
-            check(id, peak, "width", width, false);
-            return Boolean.TRUE;
+            SparkRowException problem = check(id, peak, "position", position, true);
+            if (problem == null) {
+                problem = check(id, peak, "sigma", sigma, false);
+            }
+            if (problem == null) {
+                problem = check(id, peak, "intensity", intensity, false);
+            }
+            if (problem == null) {
+                problem = check(id, peak, "width", width, false);
+            }
+            return problem;
         }
 
-        /** Refuses a given value that is not finite, or below 0 (or at 0 when {@code above}). */
-        private static void check(String id, int peak, String field, Double value, boolean above) {
+        /** @return the refusal of a given value that is not finite, or below 0 (or at 0 when {@code above}), or null */
+        private static SparkRowException check(String id, int peak, String field, Double value, boolean above) {
             if (value != null && !(Double.isFinite(value) && (above ? value > 0 : value >= 0))) {
-                throw new SparkRowException(SparkRowException.BAD_FIELD, id, field, "peak " + peak + " has " + value
+                return new SparkRowException(SparkRowException.BAD_FIELD, id, field, "peak " + peak + " has " + value
                         + "; " + (field.equals("intensity") ? "an " : "a ") + field + " must be finite and "
                         + (above ? "above 0" : "at least 0"));
             }
+            return null;
         }
     }
 
@@ -230,19 +315,111 @@ public final class SurveyIdentification {
                     if (k + 1 < n && peak.equals(peaks.apply(k + 1))) {
                         continue;
                     }
-                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "peak " + peak + " is given"
-                            + " by " + copies + " rows of this spectrum; each peak of a spectrum needs its own index"
-                            + " (the arrays are ordered by it)");
+                    throw repeated(id, peak, copies);
                 }
                 if (peak != k) {
-                    throw new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "the peaks of a spectrum"
-                            + " must be numbered 0, 1, 2, ... without a gap, so that the identified peaks carry the"
-                            + " same numbers; after " + (k == 0 ? "none" : "peak " + (k - 1)) + " comes peak " + peak
-                            + " (renumber them, e.g. row_number() over the spectrum's id ordered by peak, minus 1)");
+                    throw misplaced(id, k, peak);
                 }
                 previous = peak;
             }
             return Boolean.TRUE;
+        }
+
+        /** @return the refusal of a peak that {@code copies} rows of the spectrum give */
+        static SparkRowException repeated(String id, int peak, int copies) {
+            return new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", "peak " + peak + " is given by "
+                    + copies + " rows of this spectrum; each peak of a spectrum needs its own index (the arrays are"
+                    + " ordered by it)");
+        }
+
+        /** @return the refusal of the first peak (in ascending order) that is not numbered by its place {@code k} */
+        static SparkRowException misplaced(String id, int k, int peak) {
+            return new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", NUMBERING + "; after "
+                    + (k == 0 ? "none" : "peak " + (k - 1)) + " comes peak " + peak + RENUMBER);
+        }
+
+        /**
+         * @return the refusal of a later peak whose place {@code k} is not its number, {@code first}
+         *         being the place where the spectrum's numbering first breaks
+         */
+        static SparkRowException misplacedAfter(String id, int k, int peak, int first) {
+            return new SparkRowException(SparkRowException.BAD_FIELD, id, "peak", NUMBERING + "; peak " + peak
+                    + " comes in place " + k + " (0-based), after the numbering breaks at place " + first + RENUMBER);
+        }
+
+        private static final String NUMBERING = "the peaks of a spectrum must be numbered 0, 1, 2, ... without a gap,"
+                + " so that the identified peaks carry the same numbers";
+        private static final String RENUMBER = " (renumber them, e.g. row_number() over the spectrum's id ordered by"
+                + " peak, minus 1)";
+    }
+
+    /**
+     * The problems of one spectrum's peak rows ({@link SurveyIdentification#validatePeakRows}): its id, then its rows
+     * (peak, position, sigma, intensity, width) in any order; each problem a
+     * {@link Schemas#PEAK_ROW_PROBLEMS} row.
+     */
+    static final class PeakRowProblems implements FlatMapFunction<Row, Row> {
+        private static final long serialVersionUID = 1L;
+
+        @Override
+        public Iterator<Row> call(Row spectrum) {
+            String id = spectrum.isNullAt(0) ? null : spectrum.getString(0);
+            List<Row> rows = spectrum.getList(1);
+            int n = rows.size();
+            SparkRowException[] own = new SparkRowException[n];
+            // Each given peak's number of rows, over the rows whose id and peak are given (as the grouping sees them).
+            java.util.TreeMap<Integer, Integer> copies = new java.util.TreeMap<>();
+            for (int i = 0; i < n; i++) {
+                Row r = rows.get(i);
+                Integer peak = r.isNullAt(0) ? null : r.getInt(0);
+                own[i] = PeakRowCheck.problem(id, peak, value(r, 1), value(r, 2), value(r, 3), value(r, 4));
+                if (id != null && peak != null) {
+                    copies.merge(peak, 1, Integer::sum);
+                }
+            }
+            // Each distinct peak's place in ascending order, and the first place that is not its number.
+            java.util.Map<Integer, Integer> place = new java.util.HashMap<>();
+            int first = -1;
+            int k = 0;
+            for (int peak : copies.keySet()) {
+                place.put(peak, k);
+                if (first < 0 && peak != k) {
+                    first = k;
+                }
+                k++;
+            }
+            List<Row> problems = new java.util.ArrayList<>();
+            for (int i = 0; i < n; i++) {
+                Row r = rows.get(i);
+                Integer peak = r.isNullAt(0) ? null : r.getInt(0);
+                SparkRowException problem = own[i];
+                if (problem == null) {
+                    // The row is well-formed, so its id and peak are given.
+                    int at = place.get(peak);
+                    if (at != peak) {
+                        problem = at == first ? UniquePeaks.misplaced(id, at, peak)
+                                : UniquePeaks.misplacedAfter(id, at, peak, first);
+                    } else if (copies.get(peak) > 1) {
+                        problem = UniquePeaks.repeated(id, peak, copies.get(peak));
+                    }
+                }
+                if (problem != null) {
+                    int field = switch (problem.field()) {
+                        case "position" -> 1;
+                        case "sigma" -> 2;
+                        case "intensity" -> 3;
+                        case "width" -> 4;
+                        default -> -1;
+                    };
+                    problems.add(RowFactory.create(id, peak, problem.field(), field < 0 ? null : value(r, field),
+                            problem.code(), problem.getMessage()));
+                }
+            }
+            return problems.iterator();
+        }
+
+        private static Double value(Row r, int field) {
+            return r.isNullAt(field) ? null : r.getDouble(field);
         }
     }
 

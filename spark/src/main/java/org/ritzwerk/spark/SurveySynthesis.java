@@ -17,6 +17,7 @@ import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.ritz.RitzTransitions;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.synth.Continuum;
+import org.ritzwerk.engine.synth.DarkLines;
 import org.ritzwerk.engine.synth.Instrument;
 import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Renderer;
@@ -34,7 +35,8 @@ import org.ritzwerk.refdata.DataLines;
  * composes it (one-electron ions first, then alkali atoms, then species with a level list such as
  * He I, each with its abundance, then the parameters' line lists as {@code --lines}; temperature,
  * electron density, velocity, resolving power and the row's own noise seed), giving one
- * {@link Schemas#SPECTRA} row with the counts, the expected counts and the true lines.
+ * {@link Schemas#SPECTRA} row with the counts, the expected counts, the true lines and the count of
+ * lines on the grid that carry no light, by cause (the library's {@code SyntheticSpectrum.darkLines()}).
  *
  * <p>Each call of {@link #synthesise} broadcasts the parameters once, when it is called (before
  * any action; every action on its table reuses the broadcast); each partition makes the data
@@ -144,6 +146,10 @@ public final class SurveySynthesis {
         private final UnsafeArrayWriter linesOut = new UnsafeArrayWriter(out, 8);
         private final UnsafeRowWriter lineOut = new UnsafeRowWriter(linesOut, Schemas.TRUE_LINE.size());
         private final UnsafeArrayWriter notesOut = new UnsafeArrayWriter(out, 8);
+        private final UnsafeRowWriter darkOut = new UnsafeRowWriter(out, Schemas.DARK_LINES.size());
+        /** The field of {@link Schemas#DARK_LINES} counting each cause, by ordinal (its name in lower case). */
+        private final int[] causeFields = java.util.Arrays.stream(DarkLines.Cause.values())
+                .mapToInt(c -> Schemas.DARK_LINES.fieldIndex(c.name().toLowerCase(java.util.Locale.ROOT))).toArray();
 
         Setup(SynthesisParameters p) {
             this.p = p;
@@ -357,6 +363,7 @@ public final class SurveySynthesis {
                 Catalyst.string(out, 4, Catalyst.utf8(e.code()));
                 Catalyst.string(out, 5, Catalyst.utf8(e.getMessage()));
                 out.setNullAt(6);
+                out.setNullAt(7);
                 return out.getRow();
             }
             // Written straight into Spark's binary row form (see SurveyIdentification): no copies of
@@ -392,6 +399,16 @@ public final class SurveySynthesis {
                 notesOut.write(k, strings.of(notes.get(k)));
             }
             out.setOffsetAndSizeFromPreviousCursor(6, start);
+            // The library's own classification of the dark lines, counted by cause.
+            DarkLines dark = spectrum.darkLines();
+            start = out.cursor();
+            darkOut.resetRowWriter();
+            darkOut.write(0, dark.onGrid());
+            darkOut.write(1, dark.size());
+            for (DarkLines.Cause cause : DarkLines.Cause.values()) {
+                darkOut.write(causeFields[cause.ordinal()], dark.count(cause));
+            }
+            out.setOffsetAndSizeFromPreviousCursor(7, start);
             return out.getRow();
         }
 

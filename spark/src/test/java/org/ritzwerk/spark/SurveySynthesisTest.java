@@ -37,6 +37,13 @@ class SurveySynthesisTest {
     /** The library as the synth command composes one scene (ions, then alkali atoms, then level lists). */
     private static Scene library(DataContext data, String[] species, double[] abundances, double kelvin,
             Double density, double velocity, double resolvingPower, long seed) {
+        return library(data, species, abundances, kelvin, density, velocity, resolvingPower, seed, List.of());
+    }
+
+    /** As above, then the line lists, as {@code synth --lines} adds them after the species. */
+    private static Scene library(DataContext data, String[] species, double[] abundances, double kelvin,
+            Double density, double velocity, double resolvingPower, long seed,
+            List<org.ritzwerk.data.LineList> lists) {
         Scene.Builder b = Scene.builder(PixelGrid.linear(640, 670, 1500)).medium(Medium.air())
                 .instrument(Instrument.ofResolvingPower(resolvingPower)).naturalWidths(false).renderer(Renderer.AUTO)
                 .temperature(kelvin).nMax(12).velocity(velocity).peakCounts(5000);
@@ -61,6 +68,9 @@ class SurveySynthesisTest {
             if (!s.isHydrogenLike() && !isAlkali(data, s)) {
                 b.levels(DataLines.levels(data, s), DataLines.ritzLines(data, s), abundances[k], data.nucleus(s));
             }
+        }
+        for (org.ritzwerk.data.LineList list : lists) {
+            b.lineList(list, data::nucleus);
         }
         return b.build();
     }
@@ -112,6 +122,7 @@ class SurveySynthesisTest {
                                 9000, null, 0, 8000, 5L).render(1));
                 assertEquals(refused.code(), row.getAs("failure_code"));
                 assertEquals(refused.getMessage(), row.getAs("failure"));
+                assertTrue(row.isNullAt(7), "a refused scene has no dark_lines (null, as its other results)");
                 continue;
             }
             Scene scene = library(data, species, abundances, in.getDouble(3),
@@ -125,6 +136,7 @@ class SurveySynthesisTest {
             assertNull(row.getAs("failure"), row.getString(0));
             assertArrayEquals(s.counts(), toArray(row.getList(1)), row.getString(0));
             assertArrayEquals(s.expectedCounts(), toArray(row.getList(2)));
+            assertEquals(darkLines(s.darkLines()), row.getStruct(7), row.getString(0));
             List<Row> lines = row.getList(3);
             assertEquals(s.lines().size(), lines.size());
             if (row.getString(0).equals("s4")) {
@@ -365,6 +377,97 @@ class SurveySynthesisTest {
         String missing = SurveyIdentificationTest.failure(() -> SurveySynthesis.of(GRID.withContinuumFile(
                 folder.resolve("nosuch.csv").toString(), 250)));
         assertTrue(missing.startsWith("continuum file " + folder.resolve("nosuch.csv")), missing);
+    }
+
+    /** @return the library's dark lines as a row of {@link Schemas#DARK_LINES}, counted by the library itself */
+    private static Row darkLines(org.ritzwerk.engine.synth.DarkLines dark) {
+        return RowFactory.create(dark.onGrid(), dark.size(),
+                dark.count(org.ritzwerk.engine.synth.DarkLines.Cause.ZERO_INTENSITY),
+                dark.count(org.ritzwerk.engine.synth.DarkLines.Cause.INTENSITY_UNDERFLOW),
+                dark.count(org.ritzwerk.engine.synth.DarkLines.Cause.POPULATION_UNDERFLOW));
+    }
+
+    /**
+     * The lines on the grid that carry no light, counted by cause in {@code dark_lines}, are the
+     * library's own {@code SyntheticSpectrum.darkLines()} for the same scene. An invented line list
+     * gives each cause: a line of intensity 0 ({@code ZERO_INTENSITY}); a line of 1e-300 beside one
+     * of 1e300, whose counts once the brightest pixel is scaled to 5,000 are about 1e-300 * 5e3 /
+     * 1e300 = 5e-597, below the smallest positive double, about 4.9e-324 ({@code
+     * INTENSITY_UNDERFLOW}, common practice: IEEE 754), or whose rate becomes 0 beside H I's when
+     * the list is scaled to the ions' ({@code ZERO_INTENSITY}); and He I at 300 K, whose 1s3d 1D2
+     * level 23.07 eV up (from memory; the built-in level list gives it) has the Boltzmann factor
+     * exp(-23.07 eV / kT) = exp(-892) with kT = 0.02585 eV, far below the smallest double
+     * (exp(-744.4)), while H-alpha's upper level at 12.09 eV gives exp(-468), about 1e-203, still
+     * a double ({@code POPULATION_UNDERFLOW}). A scene the engine refuses keeps dark_lines null.
+     */
+    @Test
+    void darkLinesAreTheLibrarysCountsByCause(@org.junit.jupiter.api.io.TempDir java.nio.file.Path folder)
+            throws java.io.IOException {
+        SparkSession spark = LocalSpark.session();
+        java.nio.file.Path file = folder.resolve("dark.csv");
+        java.nio.file.Files.writeString(file, "# ritzwerk-lines 1\n# id: test-dark\n# title: invented lines\n"
+                + "# source: invented for a test\n# provenance: computed\n# version: 1\n# position-unit: nm\n"
+                + "# medium: air\nspecies,position,intensity\nNe I,645.0,1e300\nNe I,650.0,0\nNe I,662.0,1e-300\n");
+        SynthesisParameters parameters = GRID.withLineSets(List.of(file.toString()));
+        List<Row> scenes = List.of(
+                RowFactory.create("lamp", new String[0], null, 400.0, null, 0.0, 8000.0, 1L),
+                RowFactory.create("warm", new String[] {"H I"}, null, 9000.0, null, 0.0, 8000.0, 2L),
+                RowFactory.create("cool", new String[] {"H I", "He I"}, null, 300.0, null, 0.0, 8000.0, 3L),
+                RowFactory.create("cold", new String[] {"H I"}, null, 100.0, null, 0.0, 8000.0, 4L));
+        List<Row> out = SurveySynthesis.of(parameters).synthesise(spark.createDataFrame(scenes, Schemas.SCENES)
+                .repartition(2)).collectAsList();
+        assertEquals(Schemas.DARK_LINES, out.get(0).getStruct(7).schema(), "the documented struct");
+        DataContext data = DataContext.discoverDefault();
+        List<org.ritzwerk.data.LineList> lists = List.of(data.lineList(file.toString()));
+        java.util.Map<String, Row> found = new java.util.HashMap<>();
+        for (Row row : out) {
+            Row in = scenes.stream().filter(r -> r.getString(0).equals(row.getString(0))).findFirst().orElseThrow();
+            String[] species = (String[]) in.get(1);
+            double[] abundances = new double[species.length];
+            java.util.Arrays.fill(abundances, 1.0);
+            Scene scene = library(data, species, abundances, in.getDouble(3), null, 0, 8000, in.getLong(7), lists);
+            String id = row.getString(0);
+            SyntheticSpectrum s;
+            try {
+                s = scene.render(1);
+            } catch (org.ritzwerk.engine.synth.SceneException e) {
+                assertEquals(e.code(), row.getAs("failure_code"), id);
+                assertTrue(row.isNullAt(7), id + ": a refused scene keeps dark_lines null");
+                found.put(id, null);
+                continue;
+            }
+            assertNull(row.getAs("failure"), id);
+            assertArrayEquals(s.counts(), toArray(row.getList(1)), id);
+            Row dark = row.getStruct(7);
+            assertEquals(darkLines(s.darkLines()), dark, id);
+            assertEquals(dark.getInt(1), dark.getInt(2) + dark.getInt(3) + dark.getInt(4), id + ": causes sum to dark");
+            found.put(id, dark);
+        }
+        // Each cause is met (so the comparison above is not of zeros only), as the Javadoc works out.
+        assertEquals(RowFactory.create(3, 2, 1, 1, 0), found.get("lamp"), "lamp: 650 nm at 0, 662 nm underflows");
+        assertEquals(2, found.get("warm").getInt(2), "warm: both faint list lines scaled to 0 beside H I");
+        assertTrue(found.get("cool").getInt(4) > 0, "cool: He I's populations underflow at 300 K " + found);
+        assertEquals(0, found.get("warm").getInt(4), "warm: H-alpha is lit");
+        // A pipeline's filter on the column.
+        java.util.Set<String> withDark = found.entrySet().stream().filter(e -> e.getValue() != null
+                && e.getValue().getInt(1) > 0).map(java.util.Map.Entry::getKey).collect(java.util.stream.Collectors
+                .toSet());
+        assertTrue(withDark.containsAll(List.of("lamp", "warm", "cool")), withDark.toString());
+        assertEquals(withDark, SurveySynthesis.of(parameters).synthesise(
+                spark.createDataFrame(scenes, Schemas.SCENES)).where("dark_lines.dark > 0").select("id")
+                .collectAsList().stream().map(r -> r.getString(0)).collect(java.util.stream.Collectors.toSet()));
+    }
+
+    /** One column of {@link Schemas#DARK_LINES} per cause the library knows, named after it (common practice). */
+    @Test
+    void darkLinesHaveOneCountPerCause() {
+        List<String> names = new ArrayList<>(List.of("on_grid", "dark"));
+        for (org.ritzwerk.engine.synth.DarkLines.Cause cause : org.ritzwerk.engine.synth.DarkLines.Cause.values()) {
+            names.add(cause.name().toLowerCase(java.util.Locale.ROOT));
+        }
+        assertEquals(names, List.of(Schemas.DARK_LINES.fieldNames()));
+        assertEquals("dark_lines", Schemas.SPECTRA.fields()[Schemas.SPECTRA.size() - 1].name(),
+                "appended, so the earlier columns keep their places");
     }
 
     private static double[] toArray(List<Double> list) {

@@ -83,6 +83,52 @@ class UserGuideTest {
     }
 
     /**
+     * The README's peak-row validation and dark-line filter: the spectra with a refused peak row
+     * are dropped and the rest group; the scene too cold for He I's lines is found (He I's upper
+     * levels near 23 eV at 300 K: exp(-892), below the smallest double, as SurveySynthesisTest
+     * works out), the warm one is not.
+     */
+    @Test
+    void peakRowsAreValidatedAndDarkLinesFiltered(@TempDir Path folder) {
+        SparkSession spark = LocalSpark.session();
+        String peakRowFiles = folder.resolve("peak-rows.parquet").toString();
+        spark.createDataFrame(List.of(
+                RowFactory.create("spectrum-1", 0, 486.1, 1e-3, null, null),
+                RowFactory.create("spectrum-1", 1, 656.4, 1e-3, null, null),
+                RowFactory.create("spectrum-2", 0, 486.1, -1e-3, null, null),
+                RowFactory.create("spectrum-3", 0, 434.0, 1e-3, null, null),
+                RowFactory.create("spectrum-3", 2, 486.1, 1e-3, null, null)), Schemas.PEAK_ROWS).write()
+                .parquet(peakRowFiles);
+        Dataset<Row> scenes = spark.createDataFrame(List.of(
+                RowFactory.create("warm", new String[] {"H I"}, null, 9000.0, null, 0.0, 8000.0, 1L),
+                RowFactory.create("cool", new String[] {"H I", "He I"}, null, 300.0, null, 0.0, 8000.0, 2L)),
+                Schemas.SCENES);
+        Dataset<Row> spectra = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 1500).withMedium("air"))
+                .synthesise(scenes);
+
+        // --- README: peak rows ---
+        Dataset<Row> peakRows = spark.read().parquet(peakRowFiles);    // id, peak, position, sigma, ...
+        Dataset<Row> bad = SurveyIdentification.validatePeakRows(peakRows).cache();
+        bad.groupBy("field").count().show();                            // how many of each kind
+        Dataset<Row> kept = peakRows.where("id IS NOT NULL").join(bad.select("id").distinct(), "id", "left_anti");
+        Dataset<Row> peakLists = SurveyIdentification.peakLists(kept);  // refuses no row now
+        // --- end ---
+        // --- README: dark lines ---
+        Dataset<Row> cold = spectra.where("dark_lines.population_underflow > 0")   // too cold for some lines
+                .select("id", "dark_lines.on_grid", "dark_lines.dark");
+        // --- end ---
+
+        assertEquals(List.of("spectrum-2", "spectrum-3"), bad.select("id").orderBy("id").collectAsList().stream()
+                .map(r -> r.getString(0)).toList());
+        assertEquals(List.of("spectrum-1"), peakLists.collectAsList().stream().map(r -> r.getString(0)).toList());
+        List<Row> found = cold.collectAsList();
+        assertEquals(1, found.size());
+        assertEquals("cool", found.get(0).getString(0));
+        assertTrue(found.get(0).getInt(2) > 0 && found.get(0).getInt(1) >= found.get(0).getInt(2), found.toString());
+        bad.unpersist();
+    }
+
+    /**
      * The README's streaming line: the operations take batch tables, so a stream is identified
      * micro-batch by micro-batch in foreachBatch, giving each spectrum what the batch table gives
      * it (common practice: Spark's documented way to reuse batch code on a stream).
