@@ -1,7 +1,8 @@
 /**
- * Ritzwerk's computation: bulk kernels over primitive arrays (conversions now; level models,
- * rates, matching, calibration and synthesis as they land). The engine reads no files and uses
- * no global registry: it takes its parameters as values.
+ * Ritzwerk's computation: conversions, level models and rates, line lists, identification,
+ * calibration, synthesis, plasma estimates, Ritz lines, level and series fits, and alkali Rydberg
+ * quantities, as jobs over values and bulk kernels over primitive arrays. The engine reads no files
+ * and uses no global registry: it takes its parameters as values.
  */
 module org.ritzwerk.engine {
     requires transitive org.ritzwerk.api;

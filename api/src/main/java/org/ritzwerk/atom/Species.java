@@ -1,6 +1,7 @@
 package org.ritzwerk.atom;
 
 import java.util.Locale;
+import java.util.Objects;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
@@ -67,6 +68,7 @@ public record Species(int z, int massNumber, int charge) {
      * @throws SpeciesParseException naming what is wrong
      */
     public static Species parse(String text) {
+        Objects.requireNonNull(text, "text");
         String input = text.strip();
         Matcher spectroscopic = SPECTROSCOPIC.matcher(input);
         if (spectroscopic.matches()) {

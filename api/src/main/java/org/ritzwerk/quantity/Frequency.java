@@ -1,5 +1,6 @@
 package org.ritzwerk.quantity;
 
+import java.util.Objects;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.medium.Medium;
 
@@ -72,6 +73,7 @@ public final class Frequency extends AbstractQuantity implements SpectralQuantit
 
     @Override
     public Wavelength toWavelength(Medium medium) {
+        Objects.requireNonNull(medium, "medium");
         double vacuum = PhysicalConstants.C / si;
         return Wavelength.fromVacuum(vacuum, vacuum * relativeUncertainty(), medium);
     }

@@ -120,6 +120,7 @@ public final class Wavelength extends AbstractQuantity implements SpectralQuanti
 
     @Override
     public Wavelength toWavelength(Medium target) {
+        Objects.requireNonNull(target, "target");
         if (target.equals(medium)) {
             return this;
         }

@@ -1,5 +1,6 @@
 package org.ritzwerk.quantity;
 
+import java.util.Objects;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.medium.Medium;
 
@@ -80,6 +81,7 @@ public final class Wavenumber extends AbstractQuantity implements SpectralQuanti
 
     @Override
     public Wavelength toWavelength(Medium medium) {
+        Objects.requireNonNull(medium, "medium");
         requirePositive();
         double vacuum = 1 / si;
         return Wavelength.fromVacuum(vacuum, vacuum * relativeUncertainty(), medium);

@@ -79,4 +79,17 @@ class SpeciesTest {
         assertEquals(code, e.code());
         assertEquals(message, e.getMessage());
     }
+
+    /** A null argument names the parameter, as every other refusal names what was wrong. */
+    @Test
+    void nullArgumentsNameTheParameter() {
+        assertEquals("text", assertThrows(NullPointerException.class, () -> Species.parse(null)).getMessage());
+        org.ritzwerk.quantity.Wavelength line = org.ritzwerk.quantity.Wavelength.ofNanometres(656.28,
+                org.ritzwerk.medium.Medium.air());
+        assertEquals("target", assertThrows(NullPointerException.class, () -> line.toWavelength(null)).getMessage());
+        assertEquals("medium", assertThrows(NullPointerException.class,
+                () -> line.toFrequency().toWavelength(null)).getMessage());
+        assertEquals("medium", assertThrows(NullPointerException.class,
+                () -> line.toWavenumber().toWavelength(null)).getMessage());
+    }
 }

@@ -470,7 +470,12 @@ class SynthCommandTest {
                 "--temperature", "20000", "--electron-density", "3e22", "--no-noise");
         assertEquals(0, run.code(), run.err());
         assertTrue(run.err().contains("note: Stark widths are drawn for H-alpha and H-beta of hydrogen and deuterium"
-                + " only"), run.err());
+                + " only (the fits cover those); H-gamma and higher and the He II lines are drawn without"), run.err());
+        // without He II the note does not name its lines
+        CliTest.Run hydrogen = CliTest.run("synth", "--species", "H I", "--from", "380 nm", "--to", "700 nm",
+                "--temperature", "20000", "--electron-density", "3e22", "--no-noise");
+        assertTrue(hydrogen.err().contains("(the fits cover those); H-gamma and higher are drawn without")
+                && !hydrogen.err().contains("He II"), hydrogen.err());
         assertTrue(run.err().contains("note: at this density the Balmer lines above n = 8 merge into a continuum"
                 + " (Inglis-Teller); they are drawn as separate lines up to n = 23"), run.err());
         assertTrue(run.err().contains("note: H I: levels above n = 23 lie above the ionisation limit lowered by the"

@@ -73,6 +73,7 @@ public final class LampSet {
      *         message names the set)
      */
     public static LampSet of(List<LineList> lists, Medium medium) {
+        Objects.requireNonNull(lists, "lists");
         Objects.requireNonNull(medium, "medium");
         if (lists.isEmpty()) {
             throw new IllegalArgumentException("a lamp needs at least one line list");

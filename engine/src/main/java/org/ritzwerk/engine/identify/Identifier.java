@@ -181,6 +181,8 @@ public final class Identifier {
      *                                  peaks lie at the same position
      */
     public Identification identify(PeakList peaks, LineCatalog lines) {
+        Objects.requireNonNull(peaks, "peaks");
+        Objects.requireNonNull(lines, "lines");
         double[] pw = peaks.wavelengths();
         double[] ps = peaks.sigmas();
         identifyChecks(peaks, lines);

@@ -41,8 +41,9 @@ public record Tolerance(Kind kind, double value) {
             throw new IllegalArgumentException("tolerance kind is required");
         }
         if (!(value > 0) || Double.isInfinite(value)) {
-            throw new IllegalArgumentException(String.format(Locale.ROOT,
-                    "a %s tolerance must be finite and positive, got %s", kind.name().toLowerCase(Locale.ROOT), value));
+            String name = kind.name().toLowerCase(Locale.ROOT).replace('_', '-');
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "%s %s tolerance must be finite and positive,"
+                    + " got %s", name.startsWith("a") ? "an" : "a", name, value));
         }
     }
 

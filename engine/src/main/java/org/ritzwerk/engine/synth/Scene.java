@@ -949,8 +949,10 @@ public final class Scene {
                         + BalmerStark.MIN_DENSITY + " m^-3); Stark widths are left out (under 0.005 nm there)");
             }
             if (stark && ions.stream().anyMatch(ion -> ion.model().nucleus().z() <= 2)) {
+                boolean heliumIon = ions.stream().anyMatch(ion -> ion.model().nucleus().z() == 2);
                 notes.add("Stark widths are drawn for H-alpha and H-beta of hydrogen and deuterium only (the fits"
-                        + " cover those); H-gamma and higher and the He II lines are drawn without");
+                        + " cover those); H-gamma and higher" + (heliumIon ? " and the He II lines" : "")
+                        + " are drawn without");
                 // Inglis and Teller (1939): log10 Ne[cm^-3] = 23.26 - 7.5 log10 n_max (from memory).
                 double merged = Math.pow(10, (23.26 - Math.log10(electronDensity * 1e-6)) / 7.5);
                 int drawnH = ions.stream().filter(ion -> ion.model().nucleus().z() == 1)

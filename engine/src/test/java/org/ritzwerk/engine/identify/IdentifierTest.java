@@ -306,7 +306,7 @@ class IdentifierTest {
         assertEquals("element 0: -500.0 nm is not a finite positive spectral position", assertThrows(
                 IllegalArgumentException.class, () -> PeakList.of(new double[] {-500}, null, null, Unit.NANOMETRE,
                         Medium.vacuum())).getMessage());
-        assertEquals("a absolute tolerance must be finite and positive, got 0.0",
+        assertEquals("an absolute tolerance must be finite and positive, got 0.0",
                 assertThrows(IllegalArgumentException.class, () -> Tolerance.absolute(0)).getMessage());
         assertTrue(assertThrows(IdentificationException.class, () -> Identifier.of(Tolerance.kSigma(3)).identify(
                 PeakList.ofVacuumMetres(new double[] {500e-9}, null), LINES)).getMessage()
