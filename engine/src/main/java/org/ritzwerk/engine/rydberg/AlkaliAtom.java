@@ -75,7 +75,7 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * <p><b>Published elements</b>: {@link #withPublishedDipoles(List)} replaces the computed element of
  * chosen low-lying pairs by a published one (measured, or deduced from a measured lifetime); the
  * data context's atoms (refdata) carry the built-in table, so that there the engine uses a
- * published element wherever one exists, and first-p lifetimes of Na, K, Rb and Cs come within
+ * published element wherever one exists, and first-p lifetimes of Li, Na, K, Rb and Cs come within
  * 1 % of published measurements. An atom made by {@link #of} has none.
  *
  * <p><b>Uncertainties</b> ({@link Level#energyUncertaintyPerCm()}, {@link #frequencyUncertaintyHz}): a
