@@ -328,6 +328,12 @@ final class SynthCommand implements Callable<Integer> {
                                 : " (n <= " + nMax + "); widen the range or raise --n-max"), e);
             }
             throw e;
+        } catch (IllegalArgumentException e) {
+            if (renderer() == Renderer.FAST) {
+                // the fast renderer's limits (internal grid, heap) are the chosen renderer's, not a bug
+                throw new OptionException("--renderer fast: " + e.getMessage(), e);
+            }
+            throw e;
         }
         for (String note : scene.notes()) {
             spec.commandLine().getErr().println("note: " + note);

@@ -158,9 +158,10 @@ public final class FastLineRenderer {
      * @param out          pixel fluxes, one per pixel, added to (each addition at least 0: the
      *                     transforms' round-off below zero in dark pixels is set to 0); untouched when a
      *                     line is refused
-     * @throws IllegalArgumentException naming the first unusable line and field, or when the
+     * @throws IllegalArgumentException naming the first unusable line and field, when the
      *         internal grid would exceed {@value #MAX_POINTS} points (lines far narrower than the
-     *         pixel range, or one line far wider: use {@link LineRenderer})
+     *         pixel range, or one line far wider: use {@link LineRenderer}), or when its arrays
+     *         ({@link #bytes}) would not fit in the JVM's largest heap ({@code -Xmx}), with both sizes
      */
     public void render(double[] position, double[] flux, double[] gaussianFwhm, double[] lorentzFwhm, double[] out) {
         LineRenderer.checkLines(grid, instrument, position, flux, gaussianFwhm, lorentzFwhm, out);
@@ -172,6 +173,10 @@ public final class FastLineRenderer {
             throw new IllegalArgumentException("the fast renderer would need " + plan.points
                     + " internal points (at most " + MAX_POINTS + "): the lines are too narrow for the pixel range, "
                     + "or one is too wide; use the exact renderer");
+        }
+        String tooBig = tooBig(plan.points, plan.pairs, out.length, Runtime.getRuntime().maxMemory());
+        if (tooBig != null) {
+            throw new IllegalArgumentException(tooBig);
         }
         double[] drawn = new double[out.length];
         plan.render(position, flux, gaussianFwhm, lorentzFwhm, drawn);
@@ -219,6 +224,34 @@ public final class FastLineRenderer {
         // The squares of finite FWHMs below 1e150 stay finite: no need for hypot's care (and cost).
         double instrumental = instrument.fwhmAt(position);
         return (gaussianFwhm * gaussianFwhm + instrumental * instrumental) * (FWHM_TO_SIGMA * FWHM_TO_SIGMA);
+    }
+
+    /**
+     * The memory a rendering's arrays take at once, for a plan of {@code points} internal points
+     * and {@code pairs} width pairs over {@code pixels} pixels: the batch of spread grids (as many
+     * pairs as fit {@value #SPREAD_BUDGET} doubles, at least one), the summed, working and factor
+     * transforms, the transform's tables and the result (8 bytes a double).
+     *
+     * @return bytes, an estimate to within the objects' headers
+     */
+    static long bytes(long points, long pairs, int pixels) {
+        long batch = Math.max(1, Math.min(pairs, SPREAD_BUDGET / Math.max(1, points)));
+        long half = points / 2 + 1;
+        return 8 * (batch * points + points + 9 * half + points + 2L * pixels) + 4 * pairs;
+    }
+
+    /**
+     * @param heap the largest heap, bytes
+     * @return why a plan's arrays ({@link #bytes}) cannot fit in that heap, or null when they can
+     */
+    static String tooBig(long points, long pairs, int pixels, long heap) {
+        long bytes = bytes(points, pairs, pixels);
+        if (bytes <= heap) {
+            return null;
+        }
+        return String.format(java.util.Locale.ROOT, "the fast renderer would need about %.0f MB for its internal "
+                + "grid of %d points and %d width pairs, more than the JVM's largest heap of %.0f MB (-Xmx): use the "
+                + "exact renderer, or a larger heap", bytes / 1e6, points, pairs, heap / 1e6);
     }
 
     /** The plan for these lines, or null when no line has flux. */

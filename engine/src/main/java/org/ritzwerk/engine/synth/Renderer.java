@@ -9,8 +9,9 @@ public enum Renderer {
     /** {@link FastLineRenderer}: all lines at once through the Fourier domain, whole profiles. */
     FAST,
     /**
-     * {@link FastLineRenderer} when lines x pixels is at least {@link #AUTO_THRESHOLD} and its
-     * internal grid stays within its limits, otherwise {@link LineRenderer}.
+     * {@link FastLineRenderer} when lines x pixels is at least {@link #AUTO_THRESHOLD}, its
+     * internal grid stays within its limits and its arrays take at most half the JVM's largest heap,
+     * otherwise {@link LineRenderer} (which needs no more than the spectrum's own arrays).
      */
     AUTO;
 

@@ -297,7 +297,9 @@ public final class Scene {
         }
         long[] size = new FastLineRenderer(grid, instrument).size(lines.position, lines.photons, lines.gaussian,
                 lines.lorentz);
-        return size[0] <= FastLineRenderer.MAX_POINTS && size[1] <= FastLineRenderer.AUTO_MAX_PAIRS;
+        // and only where its arrays take at most half the largest heap (a small JVM keeps the exact one)
+        return size[0] <= FastLineRenderer.MAX_POINTS && size[1] <= FastLineRenderer.AUTO_MAX_PAIRS
+                && FastLineRenderer.bytes(size[0], size[1], grid.pixels()) <= Runtime.getRuntime().maxMemory() / 2;
     }
 
     /**

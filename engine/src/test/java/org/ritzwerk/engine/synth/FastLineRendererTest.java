@@ -302,4 +302,34 @@ class FastLineRendererTest {
                 + " of the peak (allowed " + fraction + "): " + expected[Math.max(at, 0)] + " vs "
                 + actual[Math.max(at, 0)]);
     }
+
+    /**
+     * A rendering whose arrays cannot fit in the heap is refused with both sizes, before it allocates
+     * (a library user saw a bare OutOfMemoryError at -Xmx64m: 200,000 pixels of Lorentzian lines); the
+     * estimate holds at least the batch of spread grids the rendering allocates.
+     */
+    @Test
+    void aRenderingTooBigForTheHeapIsRefusedWithItsSize() {
+        PixelGrid grid = PixelGrid.linear(380, 900, 200_000);
+        int lines = 400;
+        double[] position = new double[lines];
+        double[] flux = new double[lines];
+        double[] gaussian = new double[lines];
+        double[] lorentz = new double[lines];
+        for (int i = 0; i < lines; i++) {
+            position[i] = 381 + 518.0 * i / lines;
+            flux[i] = 1;
+            gaussian[i] = 0.002 + 0.00001 * i;
+            lorentz[i] = 0.001 + 0.00002 * i;
+        }
+        long[] size = new FastLineRenderer(grid, Instrument.ideal()).size(position, flux, gaussian, lorentz);
+        long bytes = FastLineRenderer.bytes(size[0], size[1], grid.pixels());
+        assertTrue(bytes >= 8 * size[0] * Math.min(size[1], (1L << 23) / size[0]), bytes + " " + Arrays.toString(size));
+        String refusal = FastLineRenderer.tooBig(size[0], size[1], grid.pixels(), 64L << 20);
+        assertTrue(refusal != null && refusal.startsWith("the fast renderer would need about ")
+                && refusal.contains("internal grid of " + size[0] + " points and " + size[1] + " width pairs")
+                && refusal.endsWith("more than the JVM's largest heap of 67 MB (-Xmx): use the exact renderer, or a "
+                        + "larger heap"), refusal);
+        assertEquals(null, FastLineRenderer.tooBig(size[0], size[1], grid.pixels(), 1L << 36));
+    }
 }
