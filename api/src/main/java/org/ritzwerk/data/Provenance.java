@@ -83,6 +83,14 @@ public record Provenance(Kind kind, String detail) {
         return new Provenance(Kind.COMPUTED, model);
     }
 
+    /**
+     * @param who who measured the values, with when and how (a lab, an instrument, a run)
+     * @return measured provenance
+     */
+    public static Provenance measuredBy(String who) {
+        return new Provenance(Kind.MEASURED, who);
+    }
+
     /** @return e.g. {@code "published: Sansonetti & Martin 2005"}, {@code "computed by hydrogen-like qed tier"} */
     public String render() {
         switch (kind) {
