@@ -151,9 +151,11 @@ public final class LevelOptimizer {
      * outliers are those of the system alone); the covariance between levels of different systems is 0.
      * See {@link LevelOptimum#systems()}.
      *
-     * <p>Refused by {@link #optimize} ({@link RitzException#BAD_ASSIGNMENT}, naming the label): a
+     * <p>Refused by {@link #optimize} ({@link RitzException#BAD_REFERENCE}, naming the label): a
      * reference whose label is not a level of any line, one in the main system (that system already
-     * holds the problem's reference), and two references in one system.
+     * holds the problem's reference; the reference level itself included), and two references in one
+     * system. A problem whose reference level is in no line is refused ({@link
+     * RitzException#BAD_ASSIGNMENT}): no level would be absolute.
      *
      * @param references the references of some (or none) of the other systems; the rest float on their
      *                   lowest level
@@ -190,9 +192,10 @@ public final class LevelOptimizer {
      *         wavenumber, residual and flag
      * @throws RitzException ({@link RitzException#UNCONNECTED}) naming the levels not connected to the reference,
      *                       unless {@link #withSeparateSystems} allows them;
-     *                       ({@link RitzException#BAD_ASSIGNMENT}) for a system reference that is not a level
-     *                       of any line, lies in the main system or shares a system with another, and for
-     *                       separate systems when the reference level is in no line;
+     *                       ({@link RitzException#BAD_REFERENCE}) for a system reference that is not a level
+     *                       of any line, lies in the main system or shares a system with another;
+     *                       ({@link RitzException#BAD_ASSIGNMENT}) for separate systems when the reference
+     *                       level is in no line;
      *                       ({@link RitzException#TOO_FEW}) for a problem without lines;
      *                       ({@link RitzException#BAD_ASSIGNMENT}) naming a line whose fitted upper level is not
      *                       above its lower level, or a level fitted below the ground level with its lines;
@@ -503,17 +506,22 @@ public final class LevelOptimizer {
             String label = MeasuredLines.normaliseLabel(r.label());
             int i = problem.levels().indexOf(label);
             if (i < 0) {
-                throw new RitzException(RitzException.BAD_ASSIGNMENT, "system reference '" + label
+                throw new RitzException(RitzException.BAD_REFERENCE, "system reference '" + label
                         + "' is not a level of any measured line");
+            }
+            if (i == 0) {
+                throw new RitzException(RitzException.BAD_REFERENCE, "system reference '" + label + "' is the "
+                        + "reference level itself, held in the main system; a system reference is for a system that "
+                        + "no line joins to it");
             }
             int s = system[i];
             if (s == 0) {
-                throw new RitzException(RitzException.BAD_ASSIGNMENT, "system reference '" + label + "' is joined "
+                throw new RitzException(RitzException.BAD_REFERENCE, "system reference '" + label + "' is joined "
                         + "by lines to the reference level '" + problem.reference() + "', whose system already holds "
                         + "that reference; a system reference is for a system that no line joins to it");
             }
             if (named[s] != null) {
-                throw new RitzException(RitzException.BAD_ASSIGNMENT, "system references '"
+                throw new RitzException(RitzException.BAD_REFERENCE, "system references '"
                         + MeasuredLines.normaliseLabel(named[s].label()) + "' and '" + label + "' are in one system "
                         + "(joined by lines); give one reference per system");
             }

@@ -213,12 +213,13 @@ class LevelSystemsTest {
             {List.of(SystemReference.at("A3", 22000, 0.1)), "system reference 'A3' is joined by lines to the "
                     + "reference level 'A0'"},
             {List.of(SystemReference.floating("B1"), SystemReference.at(" B4 ", 27500, 0.1)),
-                "system references 'B1' and 'B4' are in one system"}}) {
+                "system references 'B1' and 'B4' are in one system"},
+            {List.of(SystemReference.floating("A0")), "system reference 'A0' is the reference level itself"}}) {
             @SuppressWarnings("unchecked")
             List<SystemReference> refs = (List<SystemReference>) bad[0];
             RitzException e = assertThrows(RitzException.class,
                     () -> LevelOptimizer.defaults().withSeparateSystems(refs).optimize(problem));
-            assertEquals(RitzException.BAD_ASSIGNMENT, e.code());
+            assertEquals(RitzException.BAD_REFERENCE, e.code());
             assertTrue(e.getMessage().startsWith((String) bad[1]), e.getMessage());
         }
         assertThrows(IllegalArgumentException.class, () -> SystemReference.at("B0", -1, 0.1));
@@ -228,6 +229,7 @@ class LevelSystemsTest {
         MeasuredLines lonely = MeasuredLines.builder("G", 0).add("B1", "B0", 10, 0.1).build();
         RitzException e = assertThrows(RitzException.class,
                 () -> LevelOptimizer.defaults().withSeparateSystems(List.of()).optimize(lonely));
+        assertEquals(RitzException.BAD_ASSIGNMENT, e.code());
         assertTrue(e.getMessage().contains("'G' is in no measured line"), e.getMessage());
     }
 
