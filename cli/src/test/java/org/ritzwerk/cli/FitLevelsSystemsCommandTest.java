@@ -28,8 +28,9 @@ class FitLevelsSystemsCommandTest {
     private static final double ANCHOR = 159855.9743;
     private static final double ANCHOR_U = 0.0005;
 
-    private static Path lines(Path dir) throws IOException {
-        Path file = dir.resolve("he.csv");
+    /** The measured lines, written as he-lines.csv in dir (shipped as examples/data/he-lines.csv for the README). */
+    static Path lines(Path dir) throws IOException {
+        Path file = dir.resolve("he-lines.csv");
         Files.writeString(file, "# ritzwerk-measured-lines 1\n# title: singlets and triplets, no line between "
                 + "(invented values)\n# position-unit: cm-1\nposition,uncertainty,upper,lower\n"
                 + "4857.4567,0.0010,1s2p 1P1,1s2s 1S0\n19931.9248,0.0010,1s3p 1P1,1s2s 1S0\n"
