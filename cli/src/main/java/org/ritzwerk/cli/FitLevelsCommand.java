@@ -165,7 +165,7 @@ final class FitLevelsCommand implements Callable<Integer> {
         if (levelsOut != null) {
             String levels;
             try {
-                // a floating system's energies are relative: it is left out (named in a note), never written as absolute
+                // a floating system's energies are relative: left out (named in a note), never written as absolute
                 LevelList list = fit.absoluteLevels(levelSpecies).toLevelList(levelListInfo(levelSpecies, fit));
                 levels = levelsOut.toString().toLowerCase(Locale.ROOT).endsWith(".json")
                         ? LevelListFiles.writeJson(list) : LevelListFiles.writeCsv(list);

@@ -167,8 +167,8 @@ class ReadmeExamplesTest {
      * plasma example's peaks are synth's truth at 12,000 K and 2e22 m^-3 (counts to six
      * significant digits as intensity, as a measurement would give them, and the Voigt width with
      * the instrument's lambda / R); the series file is the one the cli tests use (members computed
-     * from the built-in Rb-87 defects); the Ca II network is {@link FitLevelsToLinesCommandTest}'s, seed 2121; the He I-like singlets and triplets
-     * are {@link FitLevelsSystemsCommandTest}'s.
+     * from the built-in Rb-87 defects); the Ca II network is {@link FitLevelsToLinesCommandTest}'s, seed 2121;
+     * the He I-like singlets and triplets are {@link FitLevelsSystemsCommandTest}'s.
      */
     @Test
     void theShippedExampleInputsAreWhatTheirGeneratorsGive(@TempDir Path dir) throws IOException {

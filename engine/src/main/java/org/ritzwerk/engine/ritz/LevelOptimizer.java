@@ -66,8 +66,9 @@ import org.apache.commons.math4.legacy.linear.SingularMatrixException;
  * <p>Refused with a {@link RitzException}: levels that no chain of lines connects to the
  * reference, unless allowed ({@link RitzException#UNCONNECTED}, naming them and the option); an
  * uncertainty below 1e-12 of the energy scale (the largest energy held, the reference's or an anchor's,
- * plus the largest wavenumber) or more than 1e10 times smaller than the largest ({@link RitzException#BAD_VALUE}, naming the line: double precision does not carry such
- * weights through the fit); a line whose fitted upper level does not lie above its lower level
+ * plus the largest wavenumber) or more than 1e10 times smaller than the largest ({@link
+ * RitzException#BAD_VALUE}, naming the line: double precision does not carry such weights through the
+ * fit); a line whose fitted upper level does not lie above its lower level
  * ({@link RitzException#BAD_ASSIGNMENT}, naming the line, both labels and energies: its assignment is
  * reversed or wrong); a level fitted more than 3 of its standard uncertainties below 0, the ground
  * level, since the reference energy is an energy above the ground level unless {@link
@@ -793,6 +794,7 @@ public final class LevelOptimizer {
     @Override
     public String toString() {
         return "LevelOptimizer[outliers beyond " + threshold + " standard deviations" + (relative
-                ? ", levels below 0 allowed]" : "]");
+                ? ", levels below 0 allowed" : "") + (systems == null ? "" : ", separate systems"
+                + (systems.isEmpty() ? "" : " with references " + systems)) + "]";
     }
 }

@@ -354,6 +354,7 @@ public final class LevelOptimum {
     @Override
     public String toString() {
         return "LevelOptimum[" + energy.length + " levels from " + (ritz.length - leftOut.size()) + " of "
-                + ritz.length + " lines, chi2 " + chiSquare + " for " + degreesOfFreedom + " degrees of freedom]";
+                + ritz.length + " lines, chi2 " + chiSquare + " for " + degreesOfFreedom + " degrees of freedom"
+                + (systems.size() == 1 ? "" : ", " + systems.size() + " systems") + "]";
     }
 }
