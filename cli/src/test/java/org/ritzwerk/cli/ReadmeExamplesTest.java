@@ -153,7 +153,9 @@ class ReadmeExamplesTest {
             "./ritzwerk lines --species \"H I\" --from \"121 nm\" --to \"122 nm\" --data my-isotopes.csv",
             "./ritzwerk series rb87-series.csv --predict 60",
             "./ritzwerk fit-levels ca-ii-lines.csv --reference \"4s 2S1/2\" --species \"Ca II\" "
-                    + "--levels-out ca-ii-fit.csv");
+                    + "--levels-out ca-ii-fit.csv",
+            "./ritzwerk fit-levels he-lines.csv --reference \"1s2s 1S0\" --reference-energy \"166277.4403 cm-1\" "
+                    + "--separate-systems");
 
     /** The README's example inputs, shipped in the repository for users to run the examples on. */
     static final Path EXAMPLE_DATA = Path.of("..", "examples", "data");
@@ -165,7 +167,8 @@ class ReadmeExamplesTest {
      * plasma example's peaks are synth's truth at 12,000 K and 2e22 m^-3 (counts to six
      * significant digits as intensity, as a measurement would give them, and the Voigt width with
      * the instrument's lambda / R); the series file is the one the cli tests use (members computed
-     * from the built-in Rb-87 defects); the Ca II network is {@link FitLevelsToLinesCommandTest}'s, seed 2121.
+     * from the built-in Rb-87 defects); the Ca II network is {@link FitLevelsToLinesCommandTest}'s, seed 2121;
+     * the He I-like singlets and triplets are {@link FitLevelsSystemsCommandTest}'s.
      */
     @Test
     void theShippedExampleInputsAreWhatTheirGeneratorsGive(@TempDir Path dir) throws IOException {
@@ -197,6 +200,8 @@ class ReadmeExamplesTest {
         Files.writeString(Path.of("target", "ca-ii-lines.generated.csv"), network, StandardCharsets.UTF_8);
         assertEquals(network, Files.readString(EXAMPLE_DATA.resolve("ca-ii-lines.csv")),
                 "examples/data/ca-ii-lines.csv (the generated one is in cli/target/ca-ii-lines.generated.csv)");
+        assertEquals(Files.readString(FitLevelsSystemsCommandTest.lines(dir)),
+                Files.readString(EXAMPLE_DATA.resolve("he-lines.csv")), "examples/data/he-lines.csv");
     }
 
     /**
@@ -220,6 +225,8 @@ class ReadmeExamplesTest {
             assertEquals(0, synth.code(), synth.err());
         } else if (command.contains("ca-ii-lines.csv")) {
             Files.copy(EXAMPLE_DATA.resolve("ca-ii-lines.csv"), dir.resolve("ca-ii-lines.csv"));
+        } else if (command.contains("he-lines.csv")) {
+            Files.copy(EXAMPLE_DATA.resolve("he-lines.csv"), dir.resolve("he-lines.csv"));
         } else if (command.contains("rb87-series.csv")) {
             Files.copy(EXAMPLE_DATA.resolve("rb87-series.csv"), dir.resolve("rb87-series.csv"));
         } else {

@@ -59,11 +59,16 @@ import org.apache.commons.math4.legacy.linear.SingularMatrixException;
  * checked and is flagged {@link LevelOptimum.LineFlag#DETERMINES_LEVEL} (it is never left out, so
  * every level stays connected); the others are {@link LevelOptimum.LineFlag#FITTED}.
  *
+ * <p><b>Systems no line joins.</b> Levels that no chain of lines connects to the reference are refused
+ * unless {@link #withSeparateSystems} allows them; then each such system is fitted on its own, its
+ * energies relative to one of its levels or, where that level's energy is given, absolute (see there).
+ *
  * <p>Refused with a {@link RitzException}: levels that no chain of lines connects to the
- * reference ({@link RitzException#UNCONNECTED}, naming them); an uncertainty below 1e-12 of the
- * energy scale (the reference energy plus the largest wavenumber) or more than 1e10 times smaller than
- * the largest ({@link RitzException#BAD_VALUE}, naming the line: double precision does not carry such
- * weights through the fit); a line whose fitted upper level does not lie above its lower level
+ * reference, unless allowed ({@link RitzException#UNCONNECTED}, naming them and the option); an
+ * uncertainty below 1e-12 of the energy scale (the largest energy held, the reference's or an anchor's,
+ * plus the largest wavenumber) or more than 1e10 times smaller than the largest ({@link
+ * RitzException#BAD_VALUE}, naming the line: double precision does not carry such weights through the
+ * fit); a line whose fitted upper level does not lie above its lower level
  * ({@link RitzException#BAD_ASSIGNMENT}, naming the line, both labels and energies: its assignment is
  * reversed or wrong); a level fitted more than 3 of its standard uncertainties below 0, the ground
  * level, since the reference energy is an energy above the ground level unless {@link
@@ -73,7 +78,7 @@ import org.apache.commons.math4.legacy.linear.SingularMatrixException;
  */
 public final class LevelOptimizer {
 
-    private static final LevelOptimizer DEFAULTS = new LevelOptimizer(3.0, false, true);
+    private static final LevelOptimizer DEFAULTS = new LevelOptimizer(3.0, false, true, null);
     /** An uncertainty below this fraction of the energy scale is refused (see the class comment). */
     static final double RELATIVE_FLOOR = 1e-12;
     /** Uncertainties more than this factor apart are refused (see the class comment). */
@@ -82,11 +87,14 @@ public final class LevelOptimizer {
     private final double threshold;
     private final boolean relative;
     private final boolean downdate;
+    /** The references of systems not joined to the main reference; null: such systems are refused. */
+    private final List<SystemReference> systems;
 
-    private LevelOptimizer(double threshold, boolean relative, boolean downdate) {
+    private LevelOptimizer(double threshold, boolean relative, boolean downdate, List<SystemReference> systems) {
         this.threshold = threshold;
         this.relative = relative;
         this.downdate = downdate;
+        this.systems = systems;
     }
 
     /**
@@ -97,7 +105,7 @@ public final class LevelOptimizer {
      * @return this optimizer refitting from scratch after every line left out
      */
     public LevelOptimizer withFullRefits() {
-        return new LevelOptimizer(threshold, relative, false);
+        return new LevelOptimizer(threshold, relative, false, systems);
     }
 
     /** @return an optimizer leaving out lines beyond 3 standard deviations, one at a time */
@@ -113,7 +121,7 @@ public final class LevelOptimizer {
         if (!(deviations > 0) || Double.isInfinite(deviations)) {
             throw new IllegalArgumentException("the outlier threshold must be finite and positive, got " + deviations);
         }
-        return new LevelOptimizer(deviations, relative, downdate);
+        return new LevelOptimizer(deviations, relative, downdate, systems);
     }
 
     /**
@@ -124,7 +132,49 @@ public final class LevelOptimizer {
      * @return this optimizer with that setting
      */
     public LevelOptimizer withLevelsBelowZero(boolean allowed) {
-        return new LevelOptimizer(threshold, allowed, downdate);
+        return new LevelOptimizer(threshold, allowed, downdate, systems);
+    }
+
+    /**
+     * Allows levels that fall into systems no chain of measured lines joins, as evaluators handle them
+     * (common practice): e.g. the singlets and triplets of He I when no intercombination line was
+     * measured, or a group of high levels seen only among themselves. The system of the problem's
+     * reference level (the main system) is fitted as before; every other system is fitted on its own
+     * with one of its levels held: the level a reference here names, or by default its lowest level.
+     * A floating reference ({@link SystemReference#floating}, and the default) makes its system's
+     * energies relative to that level, {@code E = value + x} with x unknown, and their uncertainties and
+     * covariance relative to it (the reference itself at 0 with uncertainty 0); an anchored one
+     * ({@link SystemReference#at}) holds the level at its known energy, so the system's energies are
+     * absolute and the anchor's variance is added to every entry of the system's covariance block (each
+     * level's uncertainty includes the anchor's; differences within the system, and so its lines' Ritz
+     * wavenumbers and uncertainties, are unchanged by it). The fit is one weighted least squares in which
+     * the systems share no line, so it is the separate fit of each system (its levels, residuals and
+     * outliers are those of the system alone); the covariance between levels of different systems is 0.
+     * See {@link LevelOptimum#systems()}.
+     *
+     * <p>Refused by {@link #optimize} ({@link RitzException#BAD_REFERENCE}, naming the label): a
+     * reference whose label is not a level of any line, one in the main system (that system already
+     * holds the problem's reference; the reference level itself included), and two references in one
+     * system. A problem whose reference level is in no line is refused ({@link
+     * RitzException#BAD_ASSIGNMENT}): no level would be absolute.
+     *
+     * @param references the references of some (or none) of the other systems; the rest float on their
+     *                   lowest level
+     * @return this optimizer accepting separate systems with those references
+     */
+    public LevelOptimizer withSeparateSystems(List<SystemReference> references) {
+        List<SystemReference> copy = List.copyOf(Objects.requireNonNull(references, "references"));
+        return new LevelOptimizer(threshold, relative, downdate, copy);
+    }
+
+    /** @return whether systems not joined to the main reference are fitted ({@link #withSeparateSystems}) */
+    public boolean separateSystems() {
+        return systems != null;
+    }
+
+    /** @return the system references given to {@link #withSeparateSystems}; empty without it */
+    public List<SystemReference> systemReferences() {
+        return systems == null ? List.of() : systems;
     }
 
     /** @return whether levels may come out below 0 ({@link #withLevelsBelowZero}) */
@@ -141,7 +191,12 @@ public final class LevelOptimizer {
      * @param problem the measured lines and the reference level
      * @return the optimised levels (from the lines kept), their covariance and every line's Ritz
      *         wavenumber, residual and flag
-     * @throws RitzException ({@link RitzException#UNCONNECTED}) naming the levels not connected to the reference;
+     * @throws RitzException ({@link RitzException#UNCONNECTED}) naming the levels not connected to the reference,
+     *                       unless {@link #withSeparateSystems} allows them;
+     *                       ({@link RitzException#BAD_REFERENCE}) for a system reference that is not a level
+     *                       of any line, lies in the main system or shares a system with another;
+     *                       ({@link RitzException#BAD_ASSIGNMENT}) for separate systems when the reference
+     *                       level is in no line;
      *                       ({@link RitzException#TOO_FEW}) for a problem without lines;
      *                       ({@link RitzException#BAD_ASSIGNMENT}) naming a line whose fitted upper level is not
      *                       above its lower level, or a level fitted below the ground level with its lines;
@@ -155,14 +210,14 @@ public final class LevelOptimizer {
                     + "joining them to the reference level");
         }
         int lines = problem.size();
-        checkConnected(problem);
-        checkPrecision(problem);
+        Partition part = partition(problem);
+        checkPrecision(problem, part);
         boolean[] kept = new boolean[lines];
         Arrays.fill(kept, true);
         List<Integer> leftOut = new ArrayList<>();
         int[] partner = new int[lines];
         Arrays.fill(partner, -1);
-        Fit fit = solve(problem, kept);
+        Fit fit = solve(problem, kept, part);
         boolean fresh = true;
         // iterative data snooping: leave out the worst line beyond the threshold, fit again
         while (true) {
@@ -180,7 +235,7 @@ public final class LevelOptimizer {
                     break;
                 }
                 // the downdated fit carries rounding: judge the lines kept once more on a fit from scratch
-                fit = solve(problem, kept);
+                fit = solve(problem, kept, part);
                 fresh = true;
                 continue;
             }
@@ -208,7 +263,7 @@ public final class LevelOptimizer {
             leftOut.add(worst);
             Fit next = downdate ? fit.without(problem, worst) : null;
             fresh = next == null;
-            fit = fresh ? solve(problem, kept) : next;
+            fit = fresh ? solve(problem, kept, part) : next;
         }
         double[] ritz = new double[lines];
         double[] ritzSigma = new double[lines];
@@ -216,6 +271,8 @@ public final class LevelOptimizer {
         LevelOptimum.LineFlag[] flags = new LevelOptimum.LineFlag[lines];
         double chi2 = 0;
         int used = 0;
+        double[] systemChi2 = new double[part.count];
+        int[] systemLines = new int[part.count];
         for (int k = 0; k < lines; k++) {
             int u = problem.upper(k);
             int l = problem.lower(k);
@@ -237,6 +294,8 @@ public final class LevelOptimizer {
             double r = problem.wavenumberPerCm(k) - ritz[k];
             chi2 += r * r / (s * s);
             used++;
+            systemChi2[part.system[u]] += r * r / (s * s);
+            systemLines[part.system[u]]++;
             if (partner[k] >= 0) {
                 flags[k] = LevelOptimum.LineFlag.UNRESOLVED;
             } else if (Double.isNaN(standardised[k])) {
@@ -245,11 +304,232 @@ public final class LevelOptimizer {
                 flags[k] = LevelOptimum.LineFlag.FITTED;
             }
         }
-        if (!relative) {
-            checkAboveGround(problem, fit, kept);
+        double[] energy = fit.energy.clone();
+        double[][] covariance = new double[energy.length][];
+        for (int i = 0; i < energy.length; i++) {
+            covariance[i] = fit.covariance[i].clone();
         }
-        return new LevelOptimum(problem, fit.energy, fit.covariance, ritz, ritzSigma, standardised, flags, chi2,
-                used - (problem.levels().size() - 1), threshold, leftOut, partner);
+        part.finish(energy, covariance);
+        if (!relative) {
+            checkAboveGround(problem, part, energy, covariance, kept);
+        }
+        return new LevelOptimum(problem, energy, covariance, ritz, ritzSigma, standardised, flags, chi2,
+                used - (problem.levels().size() - part.count), threshold, leftOut, partner, part.system,
+                part.describe(problem, systemLines, systemChi2));
+    }
+
+    /**
+     * Which system of levels (joined by chains of lines) each level belongs to, the main system (that of
+     * the problem's reference) numbered 0 and the others in order of their first level; the level held in
+     * each and its energy.
+     */
+    private static final class Partition {
+        /** Per level, its system. */
+        final int[] system;
+        /** The number of systems. */
+        final int count;
+        /** Per system, its levels in order. */
+        final int[][] members;
+        /** Per system, the level held (for a system without a named reference, its first until finish). */
+        final int[] held;
+        /** Per system, the reference named for it; null for the main system and a system without one. */
+        final SystemReference[] named;
+        /** Per level, the energy it is held at, cm^-1; NaN for a fitted level. */
+        final double[] fixed;
+
+        Partition(int[] system, int count, SystemReference[] named, int[] held, double referencePerCm) {
+            this.system = system;
+            this.count = count;
+            this.named = named;
+            this.held = held;
+            int[] sizes = new int[count];
+            for (int s : system) {
+                sizes[s]++;
+            }
+            members = new int[count][];
+            for (int s = 0; s < count; s++) {
+                members[s] = new int[sizes[s]];
+                sizes[s] = 0;
+            }
+            for (int i = 0; i < system.length; i++) {
+                members[system[i]][sizes[system[i]]++] = i;
+            }
+            fixed = new double[system.length];
+            Arrays.fill(fixed, Double.NaN);
+            fixed[held[0]] = referencePerCm;
+            for (int s = 1; s < count; s++) {
+                fixed[held[s]] = named[s] != null && named[s].isAbsolute() ? named[s].energyPerCm() : 0;
+            }
+        }
+
+        /** @return the largest energy held, cm^-1 */
+        double largestHeld() {
+            double largest = 0;
+            for (int s = 0; s < count; s++) {
+                largest = Math.max(largest, Math.abs(fixed[held[s]]));
+            }
+            return largest;
+        }
+
+        boolean isAbsolute(int s) {
+            return s == 0 || (named[s] != null && named[s].isAbsolute());
+        }
+
+        /**
+         * Brings the fitted energies and covariance to the systems' references: a system without a named
+         * reference is made relative to its lowest level ({@code E'_i = E_i - E_m}, {@code C'_ij = C_ij - C_im
+         * - C_mj + C_mm}, exact: a linear change of the zero), and an anchored system's covariance block takes
+         * the anchor's variance on every entry ({@code E_i = E_anchor + d_i}, the anchor independent of the
+         * lines). Differences within a system, and so the lines' Ritz wavenumbers, are unchanged.
+         */
+        void finish(double[] energy, double[][] covariance) {
+            for (int s = 1; s < count; s++) {
+                int[] in = members[s];
+                if (named[s] == null) {
+                    int low = held[s];
+                    for (int i : in) {
+                        if (energy[i] < energy[low]) {
+                            low = i;
+                        }
+                    }
+                    if (low == held[s]) {
+                        continue;
+                    }
+                    double zero = energy[low];
+                    double[] withLow = new double[in.length];
+                    for (int a = 0; a < in.length; a++) {
+                        withLow[a] = covariance[in[a]][low];
+                    }
+                    double lowVariance = covariance[low][low];
+                    for (int a = 0; a < in.length; a++) {
+                        energy[in[a]] -= zero;
+                        for (int b = 0; b < in.length; b++) {
+                            covariance[in[a]][in[b]] += lowVariance - withLow[a] - withLow[b];
+                        }
+                    }
+                    for (int i : in) {
+                        covariance[low][i] = 0;
+                        covariance[i][low] = 0;
+                    }
+                    energy[low] = 0;
+                    held[s] = low;
+                } else if (named[s].isAbsolute()) {
+                    double v = named[s].uncertaintyPerCm() * named[s].uncertaintyPerCm();
+                    for (int i : in) {
+                        for (int j : in) {
+                            covariance[i][j] += v;
+                        }
+                    }
+                }
+            }
+        }
+
+        List<LevelOptimum.LevelSystem> describe(MeasuredLines problem, int[] lines, double[] chi2) {
+            List<LevelOptimum.LevelSystem> out = new ArrayList<>();
+            for (int s = 0; s < count; s++) {
+                LevelOptimum.Standing standing = s == 0 ? LevelOptimum.Standing.MAIN
+                        : isAbsolute(s) ? LevelOptimum.Standing.ANCHORED : LevelOptimum.Standing.FLOATING;
+                double at = s == 0 ? problem.referencePerCm() : isAbsolute(s) ? named[s].energyPerCm() : 0;
+                double u = isAbsolute(s) && s > 0 ? named[s].uncertaintyPerCm() : 0;
+                List<Integer> levels = new ArrayList<>();
+                for (int i : members[s]) {
+                    levels.add(i);
+                }
+                out.add(new LevelOptimum.LevelSystem(s, problem.levels().get(held[s]), held[s], standing,
+                        s == 0 || named[s] != null, at, u, levels, lines[s], chi2[s],
+                        lines[s] - (members[s].length - 1)));
+            }
+            return List.copyOf(out);
+        }
+    }
+
+    /**
+     * @return the systems of the problem's levels with the level held in each
+     * @throws RitzException ({@link RitzException#UNCONNECTED}) when there is more than one system and
+     *                       separate systems are not allowed; ({@link RitzException#BAD_ASSIGNMENT}) for a
+     *                       system reference that is not a level, lies in the main system or shares its
+     *                       system with another, and for a reference level in no line
+     */
+    private Partition partition(MeasuredLines problem) {
+        int n = problem.levels().size();
+        int[] parent = new int[n];
+        for (int i = 0; i < n; i++) {
+            parent[i] = i;
+        }
+        for (int k = 0; k < problem.size(); k++) {
+            int a = root(parent, problem.upper(k));
+            int b = root(parent, problem.lower(k));
+            parent[a] = b;
+        }
+        int[] ofRoot = new int[n];
+        Arrays.fill(ofRoot, -1);
+        int[] system = new int[n];
+        List<Integer> first = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            int r = root(parent, i);
+            if (ofRoot[r] < 0) {
+                ofRoot[r] = first.size();
+                first.add(i);
+            }
+            system[i] = ofRoot[r];
+        }
+        int count = first.size();
+        if (count > 1 && systems == null) {
+            List<String> loose = new ArrayList<>();
+            for (int i = 1; i < n; i++) {
+                if (system[i] != 0) {
+                    loose.add("'" + problem.levels().get(i) + "'");
+                }
+            }
+            throw new RitzException(RitzException.UNCONNECTED, String.format(Locale.ROOT,
+                    "%d level%s not connected to the reference level '%s' by any chain of lines: %s; to fit each "
+                    + "system of levels joined by lines on its own, with its energies relative to one of its levels "
+                    + "unless that level's energy is known, allow separate systems "
+                    + "(LevelOptimizer.withSeparateSystems)", loose.size(), loose.size() == 1 ? " is" : "s are",
+                    problem.reference(), String.join(", ", loose)));
+        }
+        if (count > 1) {
+            boolean touched = false;
+            for (int i = 1; i < n && !touched; i++) {
+                touched = system[i] == 0;
+            }
+            if (!touched) {
+                throw new RitzException(RitzException.BAD_ASSIGNMENT, "the reference level '" + problem.reference()
+                        + "' is in no measured line, so no level is tied to it");
+            }
+        }
+        SystemReference[] named = new SystemReference[count];
+        int[] held = new int[count];
+        for (int s = 0; s < count; s++) {
+            held[s] = first.get(s);
+        }
+        for (SystemReference r : systems == null ? List.<SystemReference>of() : systems) {
+            String label = MeasuredLines.normaliseLabel(r.label());
+            int i = problem.levels().indexOf(label);
+            if (i < 0) {
+                throw new RitzException(RitzException.BAD_REFERENCE, "system reference '" + label
+                        + "' is not a level of any measured line");
+            }
+            if (i == 0) {
+                throw new RitzException(RitzException.BAD_REFERENCE, "system reference '" + label + "' is the "
+                        + "reference level itself, held in the main system; a system reference is for a system that "
+                        + "no line joins to it");
+            }
+            int s = system[i];
+            if (s == 0) {
+                throw new RitzException(RitzException.BAD_REFERENCE, "system reference '" + label + "' is joined "
+                        + "by lines to the reference level '" + problem.reference() + "', whose system already holds "
+                        + "that reference; a system reference is for a system that no line joins to it");
+            }
+            if (named[s] != null) {
+                throw new RitzException(RitzException.BAD_REFERENCE, "system references '"
+                        + MeasuredLines.normaliseLabel(named[s].label()) + "' and '" + label + "' are in one system "
+                        + "(joined by lines); give one reference per system");
+            }
+            named[s] = r;
+            held[s] = i;
+        }
+        return new Partition(system, count, named, held, problem.referencePerCm());
     }
 
     /** The energies and covariance from the kept lines. */
@@ -353,15 +633,21 @@ public final class LevelOptimizer {
         }
     }
 
-    /** Weighted least squares over the kept lines (they connect every level to the reference). */
-    private static Fit solve(MeasuredLines problem, boolean[] kept) {
+    /**
+     * Weighted least squares over the kept lines (they connect every level to the level held in its system):
+     * the unknowns are the levels not held, numbered in order; covariance 0 between systems.
+     */
+    private static Fit solve(MeasuredLines problem, boolean[] kept, Partition part) {
         int levels = problem.levels().size();
-        int p = levels - 1;                     // unknowns: every level but the reference (index 0)
+        int[] column = new int[levels];
+        int p = 0;                              // unknowns: every level but those held (the reference: index 0)
+        for (int i = 0; i < levels; i++) {
+            column[i] = Double.isNaN(part.fixed[i]) ? p++ : -1;
+        }
         int rows = 0;
         for (boolean k : kept) {
             rows += k ? 1 : 0;
         }
-        double ref = problem.referencePerCm();
         double[][] a = new double[rows][p];
         double[] b = new double[rows];
         int row = 0;
@@ -373,22 +659,21 @@ public final class LevelOptimizer {
             int u = problem.upper(k);
             int l = problem.lower(k);
             double rhs = problem.wavenumberPerCm(k);
-            if (u == 0) {
-                rhs -= ref;
+            if (column[u] < 0) {
+                rhs -= part.fixed[u];
             } else {
-                a[row][u - 1] += w;
+                a[row][column[u]] += w;
             }
-            if (l == 0) {
-                rhs += ref;
+            if (column[l] < 0) {
+                rhs += part.fixed[l];
             } else {
-                a[row][l - 1] -= w;
+                a[row][column[l]] -= w;
             }
             b[row] = rhs * w;
             row++;
         }
         double[] energy = new double[levels];
         double[][] covariance = new double[levels][levels];
-        energy[0] = ref;
         RealMatrix design = new Array2DRowRealMatrix(a, false);
         double[] solution;
         double[][] inverse;
@@ -401,10 +686,17 @@ public final class LevelOptimizer {
             throw new RitzException(RitzException.UNCONNECTED, "the level system is numerically singular: "
                     + "uncertainties span too many orders of magnitude for the lines given");
         }
-        for (int i = 1; i < levels; i++) {
-            energy[i] = solution[i - 1];
-            for (int j = 1; j < levels; j++) {
-                covariance[i][j] = 0.5 * (inverse[i - 1][j - 1] + inverse[j - 1][i - 1]);
+        for (int i = 0; i < levels; i++) {
+            int ci = column[i];
+            energy[i] = ci < 0 ? part.fixed[i] : solution[ci];
+            if (ci < 0) {
+                continue;
+            }
+            for (int j = 0; j < levels; j++) {
+                int cj = column[j];
+                if (cj >= 0 && part.system[i] == part.system[j]) {
+                    covariance[i][j] = 0.5 * (inverse[ci][cj] + inverse[cj][ci]);
+                }
             }
         }
         return new Fit(energy, covariance);
@@ -412,7 +704,7 @@ public final class LevelOptimizer {
 
     /**
      * Refuses uncertainties a double cannot carry through the fit: below {@value #RELATIVE_FLOOR} of
-     * the problem's energy scale (the reference energy plus the largest wavenumber: the size of the level
+     * the problem's energy scale (the largest energy held plus the largest wavenumber: the size of the level
      * energies, rounded in double precision to about 1.1e-16 of it), or more than {@value #SPREAD_LIMIT}
      * times smaller than the largest uncertainty (weights spread beyond 1e20). Measured on a three-level
      * loop (two lines of u on 100 cm-1, one of 1 cm-1 off by 0.005 cm-1; exact chi^2 2.5e-5): the chi^2
@@ -421,7 +713,7 @@ public final class LevelOptimizer {
      * 1e4 cm-1) leaves it right to 1e-11. Beyond these the residuals are rounding, and weights of
      * u = 1e-300 overflow.
      */
-    private static void checkPrecision(MeasuredLines problem) {
+    private static void checkPrecision(MeasuredLines problem, Partition part) {
         double largestWavenumber = 0;
         double largestU = 0;
         int loosest = 0;
@@ -432,13 +724,13 @@ public final class LevelOptimizer {
                 loosest = k;
             }
         }
-        double scale = Math.abs(problem.referencePerCm()) + largestWavenumber;
+        double scale = part.largestHeld() + largestWavenumber;
         for (int k = 0; k < problem.size(); k++) {
             double u = problem.uncertaintyPerCm(k);
             if (u < RELATIVE_FLOOR * scale) {
                 throw new RitzException(RitzException.BAD_VALUE, String.format(Locale.ROOT, "line %d (%s): its "
                         + "uncertainty %.3g cm-1 is below %.0e of the level energies' scale %.6g cm-1 "
-                        + "(reference energy plus the largest wavenumber), finer than double precision carries through "
+                        + "(energy held plus the largest wavenumber), finer than double precision carries through "
                         + "the fit; "
                         + "give an uncertainty of at least %.3g cm-1", k + 1, problem.name(k), u, RELATIVE_FLOOR,
                         scale, RELATIVE_FLOOR * scale));
@@ -454,21 +746,26 @@ public final class LevelOptimizer {
     }
 
     /**
-     * Refuses a level fitted below the ground level: the reference energy is an energy above the ground
-     * level, so every level lies at 0 or above. The lowest level more than 3 of its standard uncertainties
+     * Refuses a level fitted below the ground level: the reference energy (and an anchor's) is an energy
+     * above the ground level, so every level of the main and anchored systems lies at 0 or above (floating
+     * systems are relative, so not checked). The lowest level more than 3 of its standard uncertainties
      * below 0 is named with the kept lines that set it (a line that alone sets a level and is entered with
      * upper and lower swapped puts it there, with nothing to contradict it).
      */
-    private static void checkAboveGround(MeasuredLines problem, Fit fit, boolean[] kept) {
+    private static void checkAboveGround(MeasuredLines problem, Partition part, double[] energy,
+            double[][] covariance, boolean[] kept) {
         int i = -1;
-        for (int j = 1; j < fit.energy.length; j++) {
-            double uj = Math.sqrt(Math.max(0, fit.covariance[j][j]));
-            if (fit.energy[j] + 3 * uj < 0 && (i < 0 || fit.energy[j] < fit.energy[i])) {
+        for (int j = 0; j < energy.length; j++) {
+            if (!part.isAbsolute(part.system[j]) || j == part.held[part.system[j]]) {
+                continue;
+            }
+            double uj = Math.sqrt(Math.max(0, covariance[j][j]));
+            if (energy[j] + 3 * uj < 0 && (i < 0 || energy[j] < energy[i])) {
                 i = j;
             }
         }
         if (i >= 0) {
-            double u = Math.sqrt(Math.max(0, fit.covariance[i][i]));
+            double u = Math.sqrt(Math.max(0, covariance[i][i]));
             List<String> setting = new ArrayList<>();
             for (int k = 0; k < problem.size(); k++) {
                 if (kept[k] && (problem.upper(k) == i || problem.lower(k) == i)) {
@@ -477,36 +774,12 @@ public final class LevelOptimizer {
                             problem.levels().get(problem.lower(k)), problem.wavenumberPerCm(k)));
                 }
             }
+            int held = part.held[part.system[i]];
             throw new RitzException(RitzException.BAD_ASSIGNMENT, String.format(Locale.ROOT, "level '%s' came out "
                     + "at %.6f +- %.2g cm-1, below the ground level (energies are above the ground level, the "
                     + "reference '%s' at %.6f cm-1), set by %s; the assignment may be reversed (upper and lower "
-                    + "swapped) or wrong", problem.levels().get(i), fit.energy[i], u, problem.reference(),
-                    problem.referencePerCm(), String.join(", ", setting)));
-        }
-    }
-
-    private static void checkConnected(MeasuredLines problem) {
-        int n = problem.levels().size();
-        int[] parent = new int[n];
-        for (int i = 0; i < n; i++) {
-            parent[i] = i;
-        }
-        for (int k = 0; k < problem.size(); k++) {
-            int a = root(parent, problem.upper(k));
-            int b = root(parent, problem.lower(k));
-            parent[a] = b;
-        }
-        List<String> loose = new ArrayList<>();
-        int reference = root(parent, 0);
-        for (int i = 1; i < n; i++) {
-            if (root(parent, i) != reference) {
-                loose.add("'" + problem.levels().get(i) + "'");
-            }
-        }
-        if (!loose.isEmpty()) {
-            throw new RitzException(RitzException.UNCONNECTED, String.format(Locale.ROOT,
-                    "%d level%s not connected to the reference level '%s' by any chain of lines: %s", loose.size(),
-                    loose.size() == 1 ? " is" : "s are", problem.reference(), String.join(", ", loose)));
+                    + "swapped) or wrong", problem.levels().get(i), energy[i], u, problem.levels().get(held),
+                    part.fixed[held], String.join(", ", setting)));
         }
     }
 
@@ -521,6 +794,7 @@ public final class LevelOptimizer {
     @Override
     public String toString() {
         return "LevelOptimizer[outliers beyond " + threshold + " standard deviations" + (relative
-                ? ", levels below 0 allowed]" : "]");
+                ? ", levels below 0 allowed" : "") + (systems == null ? "" : ", separate systems"
+                + (systems.isEmpty() ? "" : " with references " + systems)) + "]";
     }
 }

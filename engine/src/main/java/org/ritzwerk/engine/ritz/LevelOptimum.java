@@ -1,6 +1,8 @@
 package org.ritzwerk.engine.ritz;
 
+import java.util.ArrayList;
 import java.util.List;
+import java.util.Objects;
 import java.util.OptionalDouble;
 import java.util.OptionalInt;
 import org.ritzwerk.atom.Species;
@@ -9,8 +11,10 @@ import org.ritzwerk.atom.Species;
  * The result of a {@link LevelOptimizer}: the optimised level energies with their covariance (from
  * the lines kept), and per measured line, kept or left out, its Ritz wavenumber with uncertainty,
  * its residual against that fit, its normalised residual and flag; the lines left out as outliers;
- * chi^2 and degrees of freedom of the lines kept. Immutable and thread-safe (accessors return
- * copies).
+ * chi^2 and degrees of freedom of the lines kept; the systems of levels that chains of lines join
+ * ({@link #systems()}: one, unless {@link LevelOptimizer#withSeparateSystems} allowed more), each with
+ * the level held in it and whether its energies are absolute or relative to that level. Immutable and
+ * thread-safe (accessors return copies).
  */
 public final class LevelOptimum {
 
@@ -34,6 +38,51 @@ public final class LevelOptimum {
         DETERMINES_LEVEL
     }
 
+    /** How the energies of a system of levels stand. */
+    public enum Standing {
+        /** The system of the problem's reference level, held at its given energy: energies absolute. */
+        MAIN,
+        /** A separate system whose reference level was given an energy: energies absolute. */
+        ANCHORED,
+        /**
+         * A separate system whose reference energy is unknown: energies relative to that level, {@code E =
+         * value + x} with x unknown (common practice), uncertainties and covariance relative to it.
+         */
+        FLOATING
+    }
+
+    /**
+     * One system of levels: levels that chains of measured lines join, and no line joins to another
+     * system.
+     *
+     * @param index                      its place in {@link #systems()}, 0 for the main system
+     * @param reference                  the label of the level held in it
+     * @param referenceLevel             that level's index in {@link #levelLabels()}
+     * @param standing                   whether its energies are absolute or relative to the reference
+     * @param named                      whether the reference was given (the problem's, or a {@link
+     *                                   SystemReference}); false: a floating system's lowest level, chosen
+     * @param referencePerCm             the reference's energy, cm^-1: given (main, anchored), 0 when floating
+     * @param referenceUncertaintyPerCm  its standard uncertainty, cm^-1: an anchor's, else 0
+     * @param levels                     the indices of its levels, in order
+     * @param lines                      the number of its lines kept in the fit
+     * @param chiSquare                  the weighted sum of squared residuals of those lines
+     * @param degreesOfFreedom           those lines minus its free levels
+     */
+    public record LevelSystem(int index, String reference, int referenceLevel, Standing standing, boolean named,
+            double referencePerCm, double referenceUncertaintyPerCm, List<Integer> levels, int lines,
+            double chiSquare, int degreesOfFreedom) {
+
+        /** Copies the list of levels. */
+        public LevelSystem {
+            levels = List.copyOf(levels);
+        }
+
+        /** @return whether its energies are absolute (main or anchored), not relative to its reference */
+        public boolean isAbsolute() {
+            return standing != Standing.FLOATING;
+        }
+    }
+
     private final MeasuredLines problem;
     private final double[] energy;
     private final double[][] covariance;
@@ -46,10 +95,12 @@ public final class LevelOptimum {
     private final double threshold;
     private final List<Integer> leftOut;
     private final int[] partner;
+    private final int[] system;
+    private final List<LevelSystem> systems;
 
     LevelOptimum(MeasuredLines problem, double[] energy, double[][] covariance, double[] ritz, double[] ritzSigma,
             double[] standardised, LineFlag[] flags, double chiSquare, int degreesOfFreedom, double threshold,
-            List<Integer> leftOut, int[] partner) {
+            List<Integer> leftOut, int[] partner, int[] system, List<LevelSystem> systems) {
         this.problem = problem;
         this.energy = energy;
         this.covariance = covariance;
@@ -62,6 +113,8 @@ public final class LevelOptimum {
         this.threshold = threshold;
         this.leftOut = List.copyOf(leftOut);
         this.partner = partner;
+        this.system = system;
+        this.systems = List.copyOf(systems);
     }
 
     /** @return the problem solved */
@@ -76,7 +129,8 @@ public final class LevelOptimum {
 
     /**
      * @param i level index in {@link #levelLabels()}
-     * @return its optimised energy, cm^-1
+     * @return its optimised energy, cm^-1: above the ground level in the main and anchored systems,
+     *         relative to its system's reference in a floating one ({@link #isAbsolute})
      */
     public double energyPerCm(int i) {
         return energy[i];
@@ -84,13 +138,44 @@ public final class LevelOptimum {
 
     /**
      * @param i level index
-     * @return its standard uncertainty, cm^-1 (0 for the reference, held fixed)
+     * @return its standard uncertainty, cm^-1 (0 for the reference, held fixed, and for a floating system's
+     *         reference; relative to the reference in a floating system; including the anchor's in an anchored
+     *         one, whose reference has the anchor's)
      */
     public double uncertaintyPerCm(int i) {
         return Math.sqrt(covariance[i][i]);
     }
 
-    /** @return the covariance of the energies, cm^-2, in the order of {@link #levelLabels()} (a copy) */
+    /**
+     * @return the systems of levels, the main system (the problem's reference's) first, then in order of
+     *         their first level; one unless {@link LevelOptimizer#withSeparateSystems} allowed more
+     */
+    public List<LevelSystem> systems() {
+        return systems;
+    }
+
+    /**
+     * @param i level index
+     * @return the index of its system in {@link #systems()}
+     */
+    public int systemOf(int i) {
+        return system[i];
+    }
+
+    /**
+     * @param i level index
+     * @return whether its energy is absolute (above the ground level), not relative to its system's
+     *         floating reference
+     */
+    public boolean isAbsolute(int i) {
+        return systems.get(system[i]).isAbsolute();
+    }
+
+    /**
+     * @return the covariance of the energies, cm^-2, in the order of {@link #levelLabels()} (a copy); 0
+     *         between levels of different systems (each system fitted on its own, an anchor independent of
+     *         the lines), relative to the reference within a floating system
+     */
     public double[][] covariance() {
         double[][] copy = new double[covariance.length][];
         for (int i = 0; i < copy.length; i++) {
@@ -180,26 +265,96 @@ public final class LevelOptimum {
 
     /**
      * @param species the species the levels belong to
-     * @return the optimised levels with their covariance, for {@link RitzLines} (J from the labels)
+     * @return the optimised levels with their covariance, for {@link RitzLines} (J from the labels); with
+     *         anchored systems, lines between systems have the uncertainty of both systems' levels, the
+     *         anchors' included
      * @throws RitzException ({@link RitzException#BAD_VALUE}) when a level came out below 0, i.e. below
-     *         the ground level (the reference held was not the ground level, or at the wrong energy)
+     *         the ground level (the reference held was not the ground level, or at the wrong energy);
+     *         ({@link RitzException#UNCONNECTED}) when a system floats: its energies are relative, so lines
+     *         between it and another system cannot be predicted ({@link #absoluteLevels}, {@link #systemLevels})
      */
     public RitzLevels levels(Species species) {
-        RitzLevels.Builder b = RitzLevels.builder(species);
+        List<String> floating = new ArrayList<>();
+        for (LevelSystem s : systems) {
+            if (!s.isAbsolute()) {
+                floating.add("'" + s.reference() + "' (" + s.levels().size() + " levels)");
+            }
+        }
+        if (!floating.isEmpty()) {
+            throw new RitzException(RitzException.UNCONNECTED, "the energies of the system" + (floating.size() == 1
+                    ? " " : "s ") + "of " + String.join(", ", floating) + " are relative to " + (floating.size() == 1
+                    ? "its" : "their") + " reference, so lines between systems cannot be predicted; give the "
+                    + "reference an energy (SystemReference.at), or take absoluteLevels or systemLevels");
+        }
+        return subset(species, null);
+    }
+
+    /**
+     * @param species the species the levels belong to
+     * @return the levels of the main and anchored systems with their covariance (those of floating systems
+     *         left out: lines to them cannot be predicted)
+     * @throws RitzException ({@link RitzException#BAD_VALUE}) when a level came out below 0
+     */
+    public RitzLevels absoluteLevels(Species species) {
+        boolean[] take = new boolean[systems.size()];
+        for (LevelSystem s : systems) {
+            take[s.index()] = s.isAbsolute();
+        }
+        return subset(species, take);
+    }
+
+    /**
+     * The levels of one system, for the Ritz lines within it: exact in a floating system too, since they
+     * are differences (the levels' energies are then relative to the reference, and so are the lines'
+     * upper energies).
+     *
+     * @param species the species the levels belong to
+     * @param index   the system's index in {@link #systems()}
+     * @return its levels with their covariance
+     * @throws IndexOutOfBoundsException for an index not in {@link #systems()}
+     * @throws RitzException ({@link RitzException#BAD_VALUE}) when a level came out below 0 (below the
+     *         ground level, or in a floating system below its reference: name the lowest level as reference)
+     */
+    public RitzLevels systemLevels(Species species, int index) {
+        Objects.checkIndex(index, systems.size());
+        boolean[] take = new boolean[systems.size()];
+        take[index] = true;
+        return subset(species, take);
+    }
+
+    /** @param take per system, whether its levels are taken; null: all */
+    private RitzLevels subset(Species species, boolean[] take) {
+        List<Integer> in = new ArrayList<>();
         for (int i = 0; i < energy.length; i++) {
+            if (take == null || take[system[i]]) {
+                in.add(i);
+            }
+        }
+        RitzLevels.Builder b = RitzLevels.builder(species);
+        for (int i : in) {
             if (energy[i] < 0) {
+                LevelSystem s = systems.get(system[i]);
                 throw new RitzException(RitzException.BAD_VALUE, "level '" + problem.levels().get(i) + "' came out at "
-                        + energy[i] + " cm-1, below the ground level; hold the ground level (or give the reference "
-                        + "its energy above it) to make a level list");
+                        + energy[i] + " cm-1, " + (s.isAbsolute() ? "below the ground level; hold the ground level "
+                        + "(or give the reference its energy above it) to make a level list" : "below its system's "
+                        + "reference '" + s.reference() + "'; name the system's lowest level as its reference to "
+                        + "make a level list"));
             }
             b.add(problem.levels().get(i), energy[i], uncertaintyPerCm(i), -1);
         }
-        return b.build().withCovariance(covariance);
+        double[][] v = new double[in.size()][in.size()];
+        for (int a = 0; a < v.length; a++) {
+            for (int c = 0; c < v.length; c++) {
+                v[a][c] = covariance[in.get(a)][in.get(c)];
+            }
+        }
+        return b.build().withCovariance(v);
     }
 
     @Override
     public String toString() {
         return "LevelOptimum[" + energy.length + " levels from " + (ritz.length - leftOut.size()) + " of "
-                + ritz.length + " lines, chi2 " + chiSquare + " for " + degreesOfFreedom + " degrees of freedom]";
+                + ritz.length + " lines, chi2 " + chiSquare + " for " + degreesOfFreedom + " degrees of freedom"
+                + (systems.size() == 1 ? "" : ", " + systems.size() + " systems") + "]";
     }
 }

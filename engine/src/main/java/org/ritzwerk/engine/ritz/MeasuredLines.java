@@ -121,6 +121,14 @@ public final class MeasuredLines {
         return notes;
     }
 
+    /**
+     * @param label a level label
+     * @return it as this class compares labels: ends stripped, every internal run of white space one blank
+     */
+    static String normaliseLabel(String label) {
+        return Builder.normalise(label);
+    }
+
     /** @return the number of lines */
     public int size() {
         return wavenumber.length;

@@ -15,6 +15,11 @@ public final class RitzException extends RitzwerkException {
     public static final String BAD_ASSIGNMENT = "ritz.bad-assignment";
     /** Code: levels that no chain of lines connects to the fixed reference level. */
     public static final String UNCONNECTED = "ritz.unconnected";
+    /**
+     * Code: a system reference ({@link LevelOptimizer#withSeparateSystems}) that is not a level of any line,
+     * lies in the system of the problem's reference, or shares its system with another.
+     */
+    public static final String BAD_REFERENCE = "ritz.bad-reference";
     /** Code: too few points (or members) for the parameters asked. */
     public static final String TOO_FEW = "ritz.too-few";
     /** Code: a fit that did not converge. */

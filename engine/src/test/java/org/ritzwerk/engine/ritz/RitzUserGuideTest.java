@@ -59,6 +59,27 @@ class RitzUserGuideTest {
         assertTrue(fitted.hasCovariance());
         assertEquals(LevelOptimum.LineFlag.DETERMINES_LEVEL, optimum.flag(3));
 
+        // the README's He I-like singlets and triplets (examples/data/he-lines.csv, invented wavenumbers)
+        MeasuredLines heLines = MeasuredLines.builder("1s2s 1S0", 166277.4403)
+                .add("1s2p 1P1", "1s2s 1S0", 4857.4567, 0.0010).add("1s3p 1P1", "1s2s 1S0", 19931.9248, 0.0010)
+                .add("1s3p 1P1", "1s2p 1P1", 15074.4690, 0.0015).add("1s3d 1D2", "1s2p 1P1", 14970.0698, 0.0010)
+                .add("1s2p 3P1", "1s2s 3S1", 9231.8571, 0.0010).add("1s3p 3P1", "1s2s 3S1", 24355.5421, 0.0012)
+                .add("1s3p 3P1", "1s2p 3P1", 15123.6862, 0.0015).add("1s3d 3D2", "1s2p 3P1", 17013.7632, 0.0010)
+                .build();
+        // --- README: separate systems ---
+        LevelOptimum systems = LevelOptimizer.defaults()
+                .withSeparateSystems(List.of(SystemReference.at("1s2s 3S1", 159855.9743, 0.0005)))  // cm-1, u cm-1
+                .optimize(heLines);                                         // singlets and triplets, no line between
+        LevelOptimum.LevelSystem triplets = systems.systems().get(1);       // reference(), standing(), levels()
+        boolean absolute = systems.isAbsolute(systems.levelLabels().indexOf("1s3d 3D2"));   // true: anchored
+        RitzLevels all = systems.absoluteLevels(Species.parse("He I"));    // both systems, lines between them too
+        // --- end ---
+        assertEquals(LevelOptimum.Standing.ANCHORED, triplets.standing());
+        assertTrue(absolute);
+        assertEquals(8, all.size());
+        // the README's transcript: the triplets relative to 1s2s 3S1 without the anchor, 1s3d 3D2 at 26245.620044
+        assertEquals(159855.9743 + 26245.620044, all.energyPerCm(all.indexOf("1s3d 3D2")), 2e-6);
+
         // --- README: series fit ---
         RydbergSeries series = RydbergSeries.builder("nS")                 // n, energy cm-1, u cm-1
                 .add(20, 33305.13511, 0.001).add(24, 33438.81998, 0.001).add(28, 33513.36403, 0.001)
