@@ -48,7 +48,8 @@ class FitLevelsCommandTest {
         return file;
     }
 
-    private static List<JsonNode> rows(String out, String kind) {
+    /** The JSON rows of one kind from fit-levels' output. */
+    static List<JsonNode> rows(String out, String kind) {
         JsonMapper json = JsonMapper.builder().build();
         List<JsonNode> rows = new ArrayList<>();
         for (String line : out.split("\\R")) {

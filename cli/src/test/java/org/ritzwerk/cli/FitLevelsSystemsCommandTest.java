@@ -7,14 +7,12 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import tools.jackson.databind.JsonNode;
-import tools.jackson.databind.json.JsonMapper;
 
 /**
  * {@code ritzwerk fit-levels --separate-systems} and {@code --system-reference}: He I-like singlets and
@@ -40,21 +38,9 @@ class FitLevelsSystemsCommandTest {
         return file;
     }
 
-    private static List<JsonNode> rows(String out, String kind) {
-        JsonMapper json = JsonMapper.builder().build();
-        List<JsonNode> rows = new ArrayList<>();
-        for (String line : out.split("\\R")) {
-            JsonNode node = json.readTree(line);
-            if (node.get("kind").asString().equals(kind)) {
-                rows.add(node);
-            }
-        }
-        return rows;
-    }
-
     private static Map<String, JsonNode> levels(String out) {
         Map<String, JsonNode> byLabel = new HashMap<>();
-        for (JsonNode level : rows(out, "level")) {
+        for (JsonNode level : FitLevelsCommandTest.rows(out, "level")) {
             byLabel.put(level.get("level").asString(), level);
         }
         return byLabel;
@@ -75,8 +61,8 @@ class FitLevelsSystemsCommandTest {
         CliTest.Run floating = CliTest.run("fit-levels", file.toString(), "--reference", SINGLET, "--format", "json",
                 "--separate-systems");
         assertEquals(0, floating.code(), floating.err());
-        assertEquals(2, rows(floating.out(), "fit").get(0).get("systems").asInt());
-        List<JsonNode> systems = rows(floating.out(), "system");
+        assertEquals(2, FitLevelsCommandTest.rows(floating.out(), "fit").get(0).get("systems").asInt());
+        List<JsonNode> systems = FitLevelsCommandTest.rows(floating.out(), "system");
         assertEquals("main", systems.get(0).get("standing").asString());
         assertEquals(TRIPLET, systems.get(1).get("reference").asString());
         assertEquals("floating", systems.get(1).get("standing").asString());
@@ -93,14 +79,14 @@ class FitLevelsSystemsCommandTest {
         }
         assertEquals(0.0, relative.get(TRIPLET).get("energy_per_cm").asDouble(), 0.0);
         assertEquals(0.0, relative.get(TRIPLET).get("uncertainty_per_cm").asDouble(), 0.0);
-        for (JsonNode line : rows(floating.out(), "line")) {
+        for (JsonNode line : FitLevelsCommandTest.rows(floating.out(), "line")) {
             assertEquals(line.get("upper").asString().contains(" 3") ? 2 : 1, line.get("system").asInt());
         }
 
         CliTest.Run anchored = CliTest.run("fit-levels", file.toString(), "--reference", SINGLET, "--format", "json",
                 "--system-reference", TRIPLET + "@" + ANCHOR + " +- " + ANCHOR_U + " cm-1");
         assertEquals(0, anchored.code(), anchored.err());
-        JsonNode system = rows(anchored.out(), "system").get(1);
+        JsonNode system = FitLevelsCommandTest.rows(anchored.out(), "system").get(1);
         assertEquals("anchored", system.get("standing").asString());
         assertEquals(ANCHOR, system.get("reference_per_cm").asDouble(), 1e-9);
         assertEquals(ANCHOR_U, system.get("reference_uncertainty_per_cm").asDouble(), 1e-15);
@@ -121,8 +107,8 @@ class FitLevelsSystemsCommandTest {
             }
         }
         // the Ritz wavenumbers and their uncertainties are differences within a system: the anchor changes none
-        List<JsonNode> a = rows(anchored.out(), "line");
-        List<JsonNode> f = rows(floating.out(), "line");
+        List<JsonNode> a = FitLevelsCommandTest.rows(anchored.out(), "line");
+        List<JsonNode> f = FitLevelsCommandTest.rows(floating.out(), "line");
         for (int k = 0; k < a.size(); k++) {
             assertEquals(f.get(k).get("ritz_per_cm").asDouble(), a.get(k).get("ritz_per_cm").asDouble(), 1e-9);
             assertEquals(f.get(k).get("ritz_uncertainty_per_cm").asDouble(),
