@@ -157,7 +157,8 @@ final class AlkaliTables {
         if (!missing.isEmpty()) {
             err.println("note: " + String.join(", ", missing) + ": not estimated ('-', null in JSON); a dipole "
                     + "element, its A and a lifetime carry one only where published elements decide them (the first p "
-                    + "levels of Li, Na, K, Rb and Cs; Cs 5d and 7s), not where the Coulomb approximation computes them");
+                    + "levels of Li, Na, K, Rb and Cs; Cs 5d and 7s), not where the Coulomb approximation computes "
+                    + "them");
             err.flush();
         }
     }

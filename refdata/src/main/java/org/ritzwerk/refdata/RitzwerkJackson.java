@@ -426,8 +426,8 @@ public final class RitzwerkJackson {
         }
 
         @Override
-        public Object deserializeWithType(JsonParser p, DeserializationContext ctxt, TypeDeserializer typeDeserializer) {
-            return standard.deserializeWithType(p, ctxt, typeDeserializer);
+        public Object deserializeWithType(JsonParser p, DeserializationContext ctxt, TypeDeserializer types) {
+            return standard.deserializeWithType(p, ctxt, types);
         }
 
         @Override

@@ -87,10 +87,12 @@ class PublishedDipolesTest {
         assertEquals(0.046, lifetimeUncertaintyNs("Cs-133 I", "6p3/2"), 1e-6);
         assertEquals(5, lifetimeUncertaintyNs("Cs-133 I", "5d5/2"), 1e-4);
         // Held to the second measurements of the test above, with their stated uncertainties:
-        // Li 2p3/2 27.11(6) ns (Volz and Schmoranzer 1996, from memory); Na 3p3/2 16.254(22) ns and Rb 5p 27.70(4), 26.24(4) ns (Volz et al. 1996, from memory);
+        // Li 2p3/2 27.11(6) ns (Volz and Schmoranzer 1996, from memory); Na 3p3/2 16.254(22) ns and Rb 5p
+        // 27.70(4), 26.24(4) ns (Volz et al. 1996, from memory);
         // Cs 6p3/2 30.499(70) ns (Rafac et al. 1999, from memory); Cs 5d5/2 1250(115) ns (Sasso et al.
         // 1992, read in the abstract); Cs 5d3/2 909(15) ns (DiBerardino and Tanner 1998, from memory).
-        String[][] checks = {{"Li-7 I", "2p3/2", "27.11", "0.06"}, {"Na-23 I", "3p3/2", "16.254", "0.022"}, {"Rb-87 I", "5p1/2", "27.70", "0.04"},
+        String[][] checks = {{"Li-7 I", "2p3/2", "27.11", "0.06"}, {"Na-23 I", "3p3/2", "16.254", "0.022"},
+            {"Rb-87 I", "5p1/2", "27.70", "0.04"},
             {"Rb-87 I", "5p3/2", "26.24", "0.04"}, {"Cs-133 I", "6p3/2", "30.499", "0.070"},
             {"Cs-133 I", "5d5/2", "1250", "115"}, {"Cs-133 I", "5d3/2", "909", "15"}};
         for (String[] c : checks) {
@@ -261,29 +263,31 @@ class PublishedDipolesTest {
     void ratesAndLifetimesCarryTheUncertaintyOfThePublishedElementsThatDecideThem() {
         AlkaliAtom bare = atom("Rb-87 I").withPublishedDipoles(List.of());
         State s6 = State.of(6, 0, 1); // two channels, to 5p1/2 and 5p3/2
-        double d1 = Math.abs(bare.reducedDipole(State.of(5, 1, 1), s6));
-        double d3 = Math.abs(bare.reducedDipole(State.of(5, 1, 3), s6));
+        State p1 = State.of(5, 1, 1);
+        State p3 = State.of(5, 1, 3);
+        double d1 = Math.abs(bare.reducedDipole(p1, s6));
+        double d3 = Math.abs(bare.reducedDipole(p3, s6));
         double u1 = 2e-4 * d1;
         double u3 = 3e-4 * d3;
-        AlkaliAtom atom = bare.withPublishedDipoles(List.of(new PublishedDipole(State.of(5, 1, 1), s6, d1, u1, "test value"),
-                new PublishedDipole(State.of(5, 1, 3), s6, d3, u3, "test value")));
-        AlkaliAtom moved1 = bare.withPublishedDipoles(List.of(new PublishedDipole(State.of(5, 1, 1), s6, d1 + u1, u1, "moved"),
-                new PublishedDipole(State.of(5, 1, 3), s6, d3, u3, "test value")));
-        AlkaliAtom moved3 = bare.withPublishedDipoles(List.of(new PublishedDipole(State.of(5, 1, 1), s6, d1, u1, "test value"),
-                new PublishedDipole(State.of(5, 1, 3), s6, d3 + u3, u3, "moved")));
-        assertEquals(u1, atom.reducedDipoleUncertainty(s6, State.of(5, 1, 1)).orElseThrow(), 0);
-        double uA = atom.einsteinAUncertainty(s6, State.of(5, 1, 3)).orElseThrow();
-        double stepA = moved3.einsteinA(s6, State.of(5, 1, 3)) - atom.einsteinA(s6, State.of(5, 1, 3));
+        AlkaliAtom atom = bare.withPublishedDipoles(List.of(new PublishedDipole(p1, s6, d1, u1, "test value"),
+                new PublishedDipole(p3, s6, d3, u3, "test value")));
+        AlkaliAtom moved1 = bare.withPublishedDipoles(List.of(new PublishedDipole(p1, s6, d1 + u1, u1, "moved"),
+                new PublishedDipole(p3, s6, d3, u3, "test value")));
+        AlkaliAtom moved3 = bare.withPublishedDipoles(List.of(new PublishedDipole(p1, s6, d1, u1, "test value"),
+                new PublishedDipole(p3, s6, d3 + u3, u3, "moved")));
+        assertEquals(u1, atom.reducedDipoleUncertainty(s6, p1).orElseThrow(), 0);
+        double uA = atom.einsteinAUncertainty(s6, p3).orElseThrow();
+        double stepA = moved3.einsteinA(s6, p3) - atom.einsteinA(s6, p3);
         assertEquals(stepA, uA, 1e-3 * uA);
         double tau = atom.radiativeLifetime(s6);
         double finite = Math.abs(moved1.radiativeLifetime(s6) - tau) + Math.abs(moved3.radiativeLifetime(s6) - tau);
         double stated = atom.radiativeLifetimeUncertainty(s6).orElseThrow();
         assertEquals(finite, stated, 1e-3 * stated);
         // a channel with a computed element leaves the lifetime without one; computed elements have none
-        AlkaliAtom half = bare.withPublishedDipoles(List.of(new PublishedDipole(State.of(5, 1, 1), s6, d1, u1, "test value")));
+        AlkaliAtom half = bare.withPublishedDipoles(List.of(new PublishedDipole(p1, s6, d1, u1, "test value")));
         assertEquals(OptionalDouble.empty(), half.radiativeLifetimeUncertainty(s6));
-        assertEquals(OptionalDouble.empty(), half.einsteinAUncertainty(s6, State.of(5, 1, 3)));
-        assertEquals(OptionalDouble.empty(), half.reducedDipoleUncertainty(State.of(5, 1, 3), s6));
+        assertEquals(OptionalDouble.empty(), half.einsteinAUncertainty(s6, p3));
+        assertEquals(OptionalDouble.empty(), half.reducedDipoleUncertainty(p3, s6));
         assertEquals(OptionalDouble.empty(), bare.radiativeLifetimeUncertainty(State.of(40, 1, 3)));
     }
 }

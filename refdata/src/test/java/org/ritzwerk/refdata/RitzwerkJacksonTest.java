@@ -103,7 +103,8 @@ class RitzwerkJacksonTest {
         assertEquals(none, back);
         Level stated = new Level(State.parse("5p3/2"), 12816.549389, 3.7, LevelOrigin.MEASURED, 3.7e-7);
         assertEquals(stated, json.readValue(json.writeValueAsString(stated), Level.class));
-        String missing = "{\"state\":\"60s1/2\",\"energyPerCm\":33690.9,\"effectiveN\":56.86,\"origin\":\"HYDROGENIC\"}";
+        String missing = "{\"state\":\"60s1/2\",\"energyPerCm\":33690.9,\"effectiveN\":56.86,"
+                + "\"origin\":\"HYDROGENIC\"}";
         DatabindException e = assertThrows(DatabindException.class, () -> json.readValue(missing, Level.class));
         assertTrue(e.getOriginalMessage().contains("Level field \"uncertaintyPerCm\" is missing (write null for a "
                 + "value that is not estimated)"), e.getOriginalMessage());
