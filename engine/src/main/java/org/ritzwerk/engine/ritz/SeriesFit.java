@@ -31,6 +31,12 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
  * uncertainties, a chance of 0.27 % per member for a normal error). An improbable fit also carries
  * the best refit without one member ({@link #bestDeletion()}). {@link #notes()} puts these into
  * sentences for a reader. Immutable and thread-safe (accessors return copies).
+ *
+ * <p><b>Repeated measurements.</b> A level measured more than once (two members of one n in a series)
+ * gives one residual per measurement (member indices as in {@link RydbergSeries}), counts once per
+ * measurement in chi^2, the degrees of freedom and the information criterion, and is predicted once
+ * ({@link #predictions}); pairs whose difference exceeds {@value #REPEAT_SIGMA} of its standard uncertainty
+ * are named ({@link #repeatedMeasurements()}, {@link #notes()}).
  */
 public final class SeriesFit {
 
@@ -58,6 +64,12 @@ public final class SeriesFit {
     public static final double UNSETTLED_WEIGHT = 0.05;
     /** The shift, in the chosen model's stated standard uncertainties, above which a larger model unsettles it. */
     public static final double UNSETTLED_SHIFT = 1;
+    /**
+     * Two measurements of one level whose difference exceeds this many of its standard uncertainties
+     * {@code sqrt(u_1^2 + u_2^2)} disagree ({@link Repeat#disagrees()}; common practice: 3 standard
+     * uncertainties, as for {@link #OUTLIER_SIGMA}, a chance of 0.27 % per pair for normal errors).
+     */
+    public static final double REPEAT_SIGMA = 3;
 
     /**
      * One model the fitter tried.
@@ -257,6 +269,35 @@ public final class SeriesFit {
         }
     }
 
+    /**
+     * Two measurements of the same level, one n of one series ({@link #repeatedMeasurements()}): how far
+     * apart they lie in the standard uncertainty of their difference. This does not depend on the fit:
+     * both measure one energy, so their difference is 0 up to their errors.
+     *
+     * @param series                   the series index
+     * @param n                        the level's n
+     * @param first                    the earlier member's index in the series (in the order given)
+     * @param second                   the later member's index
+     * @param firstWhere               where the earlier was read (a file's line, or a label)
+     * @param secondWhere              where the later was read
+     * @param differencePerCm          the later's energy minus the earlier's, cm^-1
+     * @param combinedUncertaintyPerCm the difference's standard uncertainty {@code sqrt(u_1^2 + u_2^2)}, cm^-1
+     * @param identical                whether both give the same energy and the same uncertainty
+     */
+    public record Repeat(int series, int n, int first, int second, String firstWhere, String secondWhere,
+            double differencePerCm, double combinedUncertaintyPerCm, boolean identical) {
+
+        /** @return the difference in its standard uncertainty, {@code (E_2 - E_1) / sqrt(u_1^2 + u_2^2)} */
+        public double pull() {
+            return differencePerCm / combinedUncertaintyPerCm;
+        }
+
+        /** @return whether |{@link #pull()}| exceeds {@value SeriesFit#REPEAT_SIGMA} */
+        public boolean disagrees() {
+            return Math.abs(pull()) > REPEAT_SIGMA;
+        }
+    }
+
     private final SeriesFitter.Model model;
     private final SeriesFitter.Solution chosen;
     private final int[] terms;
@@ -395,7 +436,10 @@ public final class SeriesFit {
         return chiSquare;
     }
 
-    /** @return members (and the known limit, where given) minus parameters */
+    /**
+     * @return data minus parameters: every member counts, each measurement of a level measured several times
+     *         once (not each distinct n), and the known limit where given
+     */
     public int degreesOfFreedom() {
         return points - parameters.length;
     }
@@ -578,7 +622,69 @@ public final class SeriesFit {
                     + "a series lies: %s", above.size() == 1 ? "a member is" : above.size() + " members are",
                     limitPerCm(), String.join("; ", above)));
         }
+        notes.addAll(repeatNotes());
         return notes;
+    }
+
+    /** @return the notes on repeated measurements: pairs that disagree, and pairs given identically */
+    private List<String> repeatNotes() {
+        List<String> notes = new ArrayList<>();
+        List<Repeat> repeats = repeatedMeasurements();
+        List<Repeat> disagreeing = new ArrayList<>(repeats.stream().filter(Repeat::disagrees).toList());
+        if (!disagreeing.isEmpty()) {
+            disagreeing.sort((a, b) -> Double.compare(Math.abs(b.pull()), Math.abs(a.pull())));
+            List<String> pairs = new ArrayList<>();
+            for (Repeat r : disagreeing) {
+                pairs.add(String.format(Locale.ROOT, "%s n = %d (%s and %s: difference %+.3g cm-1, %.3g times its "
+                        + "standard uncertainty %.3g cm-1)", model.series.get(r.series()).name(), r.n(), r.firstWhere(),
+                        r.secondWhere(), r.differencePerCm(), Math.abs(r.pull()), r.combinedUncertaintyPerCm()));
+            }
+            notes.add((pairs.size() == 1 ? "two measurements of one level disagree" : pairs.size()
+                    + " pairs of measurements of one level disagree") + " by more than " + (int) REPEAT_SIGMA
+                    + " standard uncertainties of their difference sqrt(u1^2 + u2^2), the largest first: "
+                    + String.join("; ", pairs) + ". Both of each pair enter the fit with their own weights, which "
+                    + "assumes their stated uncertainties: one of them, its n or its uncertainty is wrong");
+        }
+        for (Repeat r : repeats) {
+            if (r.identical()) {
+                notes.add(String.format(Locale.ROOT, "%s n = %d is given twice with the same energy and uncertainty "
+                        + "(%s and %s): both count in the fit as independent measurements; if they are one "
+                        + "measurement given twice, remove one, or it weighs double", model.series.get(r.series())
+                        .name(), r.n(), r.firstWhere(), r.secondWhere()));
+            }
+        }
+        return notes;
+    }
+
+    /**
+     * Every pair of measurements of the same n in one series (a level measured more than once: two runs, two
+     * papers, two lines reaching it), in series order, then by the earlier member's index, then the later's.
+     * Each measurement is an independent datum of the fit with its own residual ({@link #residualPerCm}); the
+     * pair's own consistency, which needs no model, is its difference over {@code sqrt(u_1^2 + u_2^2)}
+     * ({@link Repeat#pull()}); {@link #notes()} names the pairs beyond {@value #REPEAT_SIGMA} and those given
+     * identically (same energy and uncertainty: counted twice, as two measurements, which is wrong if they
+     * are one measurement copied).
+     *
+     * @return the pairs, empty where no n is measured twice
+     */
+    public List<Repeat> repeatedMeasurements() {
+        List<Repeat> out = new ArrayList<>();
+        for (int s = 0; s < model.series.size(); s++) {
+            RydbergSeries one = model.series.get(s);
+            for (int i = 0; i < one.size(); i++) {
+                for (int j = i + 1; j < one.size(); j++) {
+                    if (one.n(i) != one.n(j)) {
+                        continue;
+                    }
+                    double ui = one.uncertaintyPerCm(i);
+                    double uj = one.uncertaintyPerCm(j);
+                    double difference = one.energyPerCm(j) - one.energyPerCm(i);
+                    out.add(new Repeat(s, one.n(i), i, j, one.where(i), one.where(j), difference, Math.hypot(ui, uj),
+                            difference == 0 && ui == uj));
+                }
+            }
+        }
+        return out;
     }
 
     /**

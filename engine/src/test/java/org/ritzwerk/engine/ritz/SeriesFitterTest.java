@@ -155,9 +155,10 @@ class SeriesFitterTest {
         RydbergSeries two = RydbergSeries.builder("x").add(10, 197000, 0.1).add(11, 197400, 0.1).build();
         RitzException e = assertThrows(RitzException.class, () -> SeriesFitter.defaults().fit(R, List.of(two)));
         assertEquals(RitzException.TOO_FEW, e.code());
+        // one measurement added twice (the same place); repeated measurements of one n: SeriesRepeatsTest
         RitzException twice = assertThrows(RitzException.class,
-                () -> RydbergSeries.builder("x").add(10, 197000, 0.1, "s.csv:3").add(10, 197001, 0.1, "s.csv:4"));
-        assertTrue(twice.getMessage().startsWith("s.csv:4: n = 10 is given twice"), twice.getMessage());
+                () -> RydbergSeries.builder("x").add(10, 197000, 0.1, "s.csv:3").add(10, 197001, 0.1, "s.csv:3"));
+        assertTrue(twice.getMessage().startsWith("s.csv:3: n = 10 of series 'x' is given twice"), twice.getMessage());
         assertThrows(RitzException.class, () -> RydbergSeries.builder("x").add(0, 1, 1));
         assertThrows(RitzException.class, () -> RydbergSeries.builder("x").add(5, 1, 0));
     }
