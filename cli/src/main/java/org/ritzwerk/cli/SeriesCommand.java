@@ -269,8 +269,8 @@ final class SeriesCommand implements Callable<Integer> {
         boolean text = format == Table.Format.text;
         if (text) {
             int members = fit.series().stream().mapToInt(RydbergSeries::size).sum();
-            out.printf(java.util.Locale.ROOT, "%s: %d series, %d members%s, R_M = %.6f cm-1; chi2 = %.4g for %d degrees "
-                    + "of freedom%s%s%n%n", contents.species().notation(), fit.series().size(), members,
+            out.printf(java.util.Locale.ROOT, "%s: %d series, %d members%s, R_M = %.6f cm-1; chi2 = %.4g for %d "
+                    + "degrees of freedom%s%s%n%n", contents.species().notation(), fit.series().size(), members,
                     levels(fit) == members ? "" : " (measurements of " + levels(fit) + " levels)", fit.rydbergPerCm(),
                     fit.chiSquare(),
                     fit.degreesOfFreedom(), quality(fit), fit.unsettledTerms().isPresent()

@@ -138,7 +138,8 @@ class SeriesCommandTest {
         CliTest.Run csv = CliTest.run("series", file.toString(), "--format", "csv");
         assertEquals(0, csv.code(), csv.err());
         assertTrue(csv.out().startsWith("kind,species,series,members,rydberg_per_cm,chi_square,degrees_of_freedom,"
-                + "known_limit,chi_square_probability,fit_quality,uncertainty_scale,term_choice,levels\nfit,\"Rb-87 I\",2,22,")
+                + "known_limit,chi_square_probability,fit_quality,uncertainty_scale,term_choice,levels\n"
+                + "fit,\"Rb-87 I\",2,22,")
                 && csv.out().contains("\nkind,parameter,value,uncertainty,scaled_uncertainty,unit\n"),
                 csv.out());
     }
