@@ -36,7 +36,10 @@ import picocli.CommandLine.Spec;
                 + "chi-square probability is given; below 0.001 the fit is called improbable and a note says the "
                 + "stated uncertainties assume the model and the data right (column u x S scales them by "
                 + "S = max(1, sqrt(chi^2/dof))). Members with |residual/u| > 3 are flagged (column flag) and named "
-                + "in a note.",
+                + "in a note. A level measured more than once (one n on several rows) counts once per row: each "
+                + "measurement has its own residual row, named by its file line; two of one n whose difference "
+                + "exceeds 3 of its standard uncertainties sqrt(u1^2 + u2^2) are flagged 'repeat disagrees' and "
+                + "named in a note, and so are rows repeating the same energy and uncertainty.",
         footer = {"", "Examples:",
             "  ritzwerk series members.csv",
             "  ritzwerk series members.csv --terms 2 --predict 40,60 --format json",
@@ -265,9 +268,11 @@ final class SeriesCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         boolean text = format == Table.Format.text;
         if (text) {
-            out.printf(java.util.Locale.ROOT, "%s: %d series, %d members, R_M = %.6f cm-1; chi2 = %.4g for %d degrees "
-                    + "of freedom%s%s%n%n", contents.species().notation(), fit.series().size(),
-                    fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
+            int members = fit.series().stream().mapToInt(RydbergSeries::size).sum();
+            out.printf(java.util.Locale.ROOT, "%s: %d series, %d members%s, R_M = %.6f cm-1; chi2 = %.4g for %d "
+                    + "degrees of freedom%s%s%n%n", contents.species().notation(), fit.series().size(), members,
+                    levels(fit) == members ? "" : " (measurements of " + levels(fit) + " levels)", fit.rydbergPerCm(),
+                    fit.chiSquare(),
                     fit.degreesOfFreedom(), quality(fit), fit.unsettledTerms().isPresent()
                             ? "; the choice of terms is UNSETTLED: see the notes for what to quote" : "");
             if (!limit.isEmpty()) {
@@ -285,7 +290,8 @@ final class SeriesCommand implements Callable<Integer> {
                     Table.Column.number("chi_square_probability", "P(chi2)", "%.3g"),
                     Table.Column.text("fit_quality", "quality"),
                     Table.Column.number("uncertainty_scale", "S", "%.4g"),
-                    Table.Column.text("term_choice", "terms")), out, format);
+                    Table.Column.text("term_choice", "terms"), Table.Column.number("levels", "levels", "%d")), out,
+                    format);
             summary.add("fit", contents.species().notation(), fit.series().size(),
                     fit.series().stream().mapToInt(RydbergSeries::size).sum(), fit.rydbergPerCm(), fit.chiSquare(),
                     fit.degreesOfFreedom(), limit.isEmpty() ? null : limit.get(0) + " +- " + limit.get(1) + " cm-1",
@@ -293,7 +299,7 @@ final class SeriesCommand implements Callable<Integer> {
                     fit.chiSquareProbability().isEmpty() ? "no degrees of freedom"
                             : fit.isImprobable() ? "improbable" : fit.isTooGood() ? "too-good" : "consistent",
                     fit.uncertaintyScale(), fit.candidates().size() == 1 ? "one-model"
-                            : fit.unsettledTerms().isPresent() ? "unsettled" : "settled");
+                            : fit.unsettledTerms().isPresent() ? "unsettled" : "settled", levels(fit));
             summary.finish();
         }
         Table parameters = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("parameter", "parameter"),
@@ -348,13 +354,38 @@ final class SeriesCommand implements Callable<Integer> {
                 Table.Column.number("normalised_residual", "residual/u", "%.2f"),
                 Table.Column.number("quantum_defect", "defect", "%.6f"), Table.Column.text("flag", "flag"),
                 Table.Column.text("where", "where")), out, format);
+        // members of a level measured more than once: disagreeing (or identical) pairs are flagged on both rows
+        java.util.Set<String> disagree = new java.util.HashSet<>();
+        java.util.Set<String> identical = new java.util.HashSet<>();
+        for (SeriesFit.Repeat r : fit.repeatedMeasurements()) {
+            if (r.disagrees()) {
+                disagree.add(r.series() + ":" + r.first());
+                disagree.add(r.series() + ":" + r.second());
+            }
+            if (r.identical()) {
+                identical.add(r.series() + ":" + r.first());
+                identical.add(r.series() + ":" + r.second());
+            }
+        }
         for (int s = 0; s < fit.series().size(); s++) {
             RydbergSeries one = fit.series().get(s);
             for (int i = 0; i < one.size(); i++) {
                 double r = fit.residualPerCm(s, i);
                 boolean above = fit.measuredDefectUncertainty(s, i).isEmpty();
-                String flag = fit.isOutlier(s, i) ? (above ? "outlier, above limit" : "outlier")
-                        : above ? "above limit" : null;
+                List<String> flags = new ArrayList<>();
+                if (fit.isOutlier(s, i)) {
+                    flags.add("outlier");
+                }
+                if (above) {
+                    flags.add("above limit");
+                }
+                if (disagree.contains(s + ":" + i)) {
+                    flags.add("repeat disagrees");
+                }
+                if (identical.contains(s + ":" + i)) {
+                    flags.add("identical repeat");
+                }
+                String flag = flags.isEmpty() ? null : String.join(", ", flags);
                 members.add("member", one.name(), one.n(i), one.energyPerCm(i), one.uncertaintyPerCm(i),
                         one.energyPerCm(i) - r, r, fit.normalisedResidual(s, i),
                         above ? null : fit.measuredDefect(s, i), flag, one.where(i));
@@ -406,6 +437,11 @@ final class SeriesCommand implements Callable<Integer> {
         }
         candidates.finish();
         out.flush();
+    }
+
+    /** @return the number of levels measured (distinct n per series), at most the number of members */
+    private static int levels(SeriesFit fit) {
+        return fit.series().stream().mapToInt(one -> one.principalNumbers().length).sum();
     }
 
     /** @return the text summary's account of the fit's chi-square probability */

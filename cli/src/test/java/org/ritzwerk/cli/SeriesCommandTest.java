@@ -138,9 +138,67 @@ class SeriesCommandTest {
         CliTest.Run csv = CliTest.run("series", file.toString(), "--format", "csv");
         assertEquals(0, csv.code(), csv.err());
         assertTrue(csv.out().startsWith("kind,species,series,members,rydberg_per_cm,chi_square,degrees_of_freedom,"
-                + "known_limit,chi_square_probability,fit_quality,uncertainty_scale,term_choice\nfit,\"Rb-87 I\",2,22,")
+                + "known_limit,chi_square_probability,fit_quality,uncertainty_scale,term_choice,levels\n"
+                + "fit,\"Rb-87 I\",2,22,")
                 && csv.out().contains("\nkind,parameter,value,uncertainty,scaled_uncertainty,unit\n"),
                 csv.out());
+    }
+
+    /**
+     * A level measured twice was refused (data.duplicate); now each row is a member with its own residual
+     * row named by its line. The example's members plus a second nS1/2 n = 30 agreeing with the first
+     * (0.5e-4 cm-1 apart) and a second nD5/2 n = 30 1e-3 cm-1 off (7.1 standard uncertainties of the
+     * difference, sqrt(2) 1e-4): 24 members of 22 levels, 24 - 5 degrees of freedom with two terms per
+     * series, both rows of each pair printed, the disagreeing pair flagged on both rows and named in a note
+     * with both lines.
+     */
+    @Test
+    void aLevelMeasuredTwicePrintsBothRowsAndNotesADisagreement(@TempDir Path dir) throws IOException {
+        Path file = example(dir);
+        String text = Files.readString(file);
+        double s30 = 33538.79735952799;
+        double d30 = 33557.15266266235;
+        Path repeats = dir.resolve("repeats.csv");
+        Files.writeString(repeats, text + String.format(Locale.ROOT, "nS1/2,30,%.9f,0.0001%nnD5/2,30,%.9f,0.0001%n",
+                s30 + 0.5e-4, d30 + 1e-3));
+        // the example has 6 header lines and 22 members: the repeats are on lines 29 and 30
+        CliTest.Run run = CliTest.run("series", repeats.toString(), "--terms", "2,2", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        JsonMapper json = JsonMapper.builder().build();
+        int members = 0;
+        java.util.List<String> thirty = new java.util.ArrayList<>();
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode row = json.readTree(line);
+            switch (row.get("kind").asString()) {
+                case "fit" -> {
+                    assertEquals(24, row.get("members").asInt(), line);
+                    assertEquals(22, row.get("levels").asInt(), line);
+                    assertEquals(24 - 5, row.get("degrees_of_freedom").asInt(), line);
+                }
+                case "member" -> {
+                    members++;
+                    if (row.get("n").asString().equals("30")) {
+                        thirty.add(row.get("series").asString() + " " + row.get("where").asString() + " "
+                                + (row.get("flag").isNull() ? "-" : row.get("flag").asString()));
+                    }
+                }
+                default -> { }
+            }
+        }
+        assertEquals(24, members);
+        String name = repeats.toString();
+        assertEquals(java.util.List.of("nS1/2 " + name + ":17 -", "nD5/2 " + name + ":18 repeat disagrees",
+                "nS1/2 " + name + ":29 -", "nD5/2 " + name + ":30 outlier, repeat disagrees"), thirty.stream()
+                .sorted(java.util.Comparator.comparing(t -> Integer.parseInt(t.replaceAll(".*:(\\d+) .*", "$1"))))
+                .toList());
+        assertTrue(run.err().contains("note: two measurements of one level disagree by more than 3 standard "
+                + "uncertainties of their difference sqrt(u1^2 + u2^2), the largest first: nD5/2 n = 30 (" + name
+                + ":18 and " + name + ":30: difference +0.00100 cm-1, 7.07 times"), run.err());
+        CliTest.Run table = CliTest.run("series", repeats.toString(), "--terms", "2,2");
+        assertEquals(0, table.code(), table.err());
+        assertTrue(table.out().startsWith("Rb-87 I: 2 series, 24 members (measurements of 22 levels), R_M"),
+                table.out());
+        assertTrue(table.out().contains(name + ":29") && table.out().contains(name + ":17"), table.out());
     }
 
     @Test
@@ -219,7 +277,8 @@ class SeriesCommandTest {
         assertTrue(run.err().contains("bad.csv:5:2: column n: n must be an integer"), run.err());
         assertTrue(run.err().contains("bad.csv:6:4: column uncertainty"), run.err());
         assertTrue(run.err().contains("bad.csv:7:3: column energy: energy is not a number: 'abc'"), run.err());
-        assertTrue(run.err().contains("bad.csv:9:2: column n: n = 23 of series 'S' is already on line 8"), run.err());
+        // n = 23 on lines 8 and 9 is a level measured twice, not a problem (it was refused as a duplicate)
+        assertTrue(run.err().contains("3 problems") && !run.err().contains("bad.csv:9"), run.err());
         assertTrue(!run.err().contains("Exception") && !run.err().contains("NaN"), run.err());
 
         Path noSpecies = dir.resolve("nospecies.csv");

@@ -31,8 +31,12 @@ import org.ritzwerk.quantity.Unit;
  * unit: cm-1, m-1, eV, meV, J, or Hz to THz for energies E / h as comb and wavemeter data come) are
  * required, {@code title}, {@code source} and {@code note} optional. Every column is required:
  * {@code series} (a name; rows of one name form one series, in the order the names first appear),
- * {@code n} (an integer 1 to 10000, once per series), {@code energy} above the ground level and its
- * standard {@code uncertainty} (positive); an empty or blank field in any of them is an error. In
+ * {@code n} (an integer 1 to 10000), {@code energy} above the ground level and its standard
+ * {@code uncertainty} (positive); an empty or blank field in any of them is an error. A row is one
+ * measurement: an n given on several rows of one series is a level measured several times (two runs,
+ * two papers, two lines reaching it), each row an independent datum of the fit with its own residual,
+ * named by its line ({@link RydbergSeries#where}; {@code file:line (entry k)} for JSON entries sharing a
+ * line). Energies must rise with n: every measurement of an n above every measurement of the n below. In
  * JSON the key is {@code energyUnit} and the rows are under {@code members}. Every problem is
  * reported with file, line and column, all at once.
  * Stateless and thread-safe.
@@ -106,8 +110,11 @@ public final class SeriesFiles {
             factor = one[0];
         }
         Map<String, RydbergSeries.Builder> builders = new LinkedHashMap<>();
-        Map<String, Integer> seen = new HashMap<>();
-        Map<String, java.util.TreeMap<Integer, Map.Entry<Double, TabularFiles.Row>>> members = new LinkedHashMap<>();
+        // JSON entries sharing a line are told apart by their place in the array
+        Map<Integer, Integer> rowsOnLine = new HashMap<>();
+        p.rows.forEach(row -> rowsOnLine.merge(row.line(), 1, Integer::sum));
+        Map<String, java.util.TreeMap<Integer, List<Map.Entry<Double, TabularFiles.Row>>>> members =
+                new LinkedHashMap<>();
         for (TabularFiles.Row row : p.rows) {
             int before = p.problems.size();
             String name = p.text(row, "series");
@@ -135,30 +142,35 @@ public final class SeriesFiles {
             if (p.problems.size() != before || name == null) {
                 continue;
             }
-            String key = name.strip() + "|" + (int) n;
-            Integer first = seen.putIfAbsent(key, row.line());
-            if (first != null) {
-                p.rowProblem(row, "n", "data.duplicate", "n = " + (int) n + " of series '" + name.strip()
-                        + "' is already on line " + first);
-                continue;
-            }
+            // a repeated n is one more measurement of that level, placed by its own line
+            String place = p.source + ":" + row.line() + (row.entry() > 0 && rowsOnLine.get(row.line()) > 1
+                    ? " (entry " + row.entry() + ")" : "");
             builders.computeIfAbsent(name.strip(), RydbergSeries::builder).add((int) n, energy * factor,
-                    uncertainty * factor, p.source + ":" + row.line());
-            members.computeIfAbsent(name.strip(), k -> new java.util.TreeMap<>()).put((int) n,
-                    Map.entry(energy * factor, row));
+                    uncertainty * factor, place);
+            members.computeIfAbsent(name.strip(), k -> new java.util.TreeMap<>()).computeIfAbsent((int) n,
+                    k -> new ArrayList<>()).add(Map.entry(energy * factor, row));
         }
         // A Rydberg series rises towards its limit: a member below one of lower n is a typing error
-        // (or a member of another series), which a fit would only turn into nonsense defects.
+        // (or a member of another series), which a fit would only turn into nonsense defects. Every
+        // measurement of an n must lie above every measurement of the n below.
         members.forEach((name, byN) -> {
-            Map.Entry<Integer, Map.Entry<Double, TabularFiles.Row>> previous = null;
-            for (Map.Entry<Integer, Map.Entry<Double, TabularFiles.Row>> member : byN.entrySet()) {
-                if (previous != null && !(member.getValue().getKey() > previous.getValue().getKey())) {
-                    p.rowProblem(member.getValue().getValue(), "energy", "data.not-rising", String.format(
-                            java.util.Locale.ROOT, "series '%s': the energy of n = %d is not above that of n = %d"
-                                    + " (line %d); a Rydberg series rises towards its limit", name, member.getKey(),
-                            previous.getKey(), previous.getValue().getValue().line()));
+            Map.Entry<Integer, List<Map.Entry<Double, TabularFiles.Row>>> previous = null;
+            for (Map.Entry<Integer, List<Map.Entry<Double, TabularFiles.Row>>> level : byN.entrySet()) {
+                if (previous != null) {
+                    Map.Entry<Double, TabularFiles.Row> highest = previous.getValue().get(0);
+                    for (Map.Entry<Double, TabularFiles.Row> m : previous.getValue()) {
+                        highest = m.getKey() > highest.getKey() ? m : highest;
+                    }
+                    for (Map.Entry<Double, TabularFiles.Row> m : level.getValue()) {
+                        if (!(m.getKey() > highest.getKey())) {
+                            p.rowProblem(m.getValue(), "energy", "data.not-rising", String.format(java.util.Locale.ROOT,
+                                    "series '%s': the energy of n = %d is not above that of n = %d (line %d); a "
+                                    + "Rydberg series rises towards its limit", name, level.getKey(), previous.getKey(),
+                                    highest.getValue().line()));
+                        }
+                    }
                 }
-                previous = member;
+                previous = level;
             }
         });
         if (p.problems.isEmpty() && builders.isEmpty()) {

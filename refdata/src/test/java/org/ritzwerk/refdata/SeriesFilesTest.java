@@ -43,6 +43,52 @@ class SeriesFilesTest {
                 e.getMessage());
     }
 
+    /**
+     * A level measured twice (n = 22 on lines 6 and 8) was refused as a duplicate; each row is now one
+     * measurement of the series, placed by its own line, in file order.
+     */
+    @Test
+    void aRepeatedNIsOneMoreMeasurement() {
+        String text = HEADER + "nS,20,45540.23,0.002\nnS,22,45619.45,0.002\nnS,24,45676.88,0.002\n"
+                + "nS,22,45619.452,0.004\nnS,22,45619.45,0.002\n";
+        SeriesFiles.Contents c = SeriesFiles.read(text, "repeat.csv");
+        var s = c.series().get(0);
+        assertEquals(5, s.size());
+        assertEquals(List.of("repeat.csv:5", "repeat.csv:6", "repeat.csv:7", "repeat.csv:8", "repeat.csv:9"),
+                java.util.stream.IntStream.range(0, 5).mapToObj(s::where).toList());
+        assertEquals(3, s.measurements(22));
+        assertEquals(45619.452, s.energyPerCm(3));
+        assertEquals(3, s.principalNumbers().length);
+    }
+
+    /** JSON entries sharing a line, repeating one n, are told apart by their place in the array. */
+    @Test
+    void repeatedEntriesOnOneJsonLineAreToldApart() {
+        String json = "{\"format\": \"ritzwerk-series\", \"formatVersion\": 1, \"species\": \"Sr-88 I\", "
+                + "\"energyUnit\": \"cm-1\", \"members\": [\n"
+                + "{\"series\": \"nS\", \"n\": 20, \"energy\": 45540.23, \"uncertainty\": 0.002},\n"
+                + "{\"series\": \"nS\", \"n\": 22, \"energy\": 45619.45, \"uncertainty\": 0.002}, "
+                + "{\"series\": \"nS\", \"n\": 22, \"energy\": 45619.46, \"uncertainty\": 0.003}]}";
+        var s = SeriesFiles.read(json, "repeat.json").series().get(0);
+        assertEquals(List.of("repeat.json:2", "repeat.json:3 (entry 2)", "repeat.json:3 (entry 3)"),
+                java.util.stream.IntStream.range(0, 3).mapToObj(s::where).toList());
+    }
+
+    /**
+     * Every measurement of an n must lie above every measurement of the n below: a repeat of n = 22 below
+     * the highest measurement of n = 20 is refused naming that line.
+     */
+    @Test
+    void aRepeatBelowTheLevelUnderItIsRefused() {
+        String text = HEADER + "nS,20,45540.23,0.002\nnS,20,45540.24,0.002\nnS,22,45619.45,0.002\n"
+                + "nS,22,45540.235,0.002\n";
+        DataFileException e = assertThrows(DataFileException.class, () -> SeriesFiles.read(text, "low.csv"));
+        assertEquals(List.of("8 data.not-rising"), e.problems().stream().map(p -> p.line() + " " + p.code())
+                .collect(Collectors.toList()));
+        assertTrue(e.getMessage().contains("the energy of n = 22 is not above that of n = 20 (line 6)"),
+                e.getMessage());
+    }
+
     /** A good file reads every row into its series, in the order the names first appear. */
     @Test
     void everyRowOfAGoodFileIsRead() {

@@ -51,6 +51,15 @@ import org.ritzwerk.engine.rydberg.AlkaliAtom;
  * at the stated rate; {@link SeriesFit#unsettledTerms()} then says so where a larger model tried moves the
  * limit (README, series section, for the figures on a series shaped like Sr-88 5snd 1D2).
  *
+ * <p><b>Repeated measurements.</b> A level measured more than once (members of one n given several times,
+ * each from its own place: {@link RydbergSeries}) enters with every measurement as an independent datum of
+ * its own weight {@code 1 / u^2}, as weighted least squares takes any set of independent data (common
+ * practice). The parameters are then those of a fit to the measurements' weighted mean
+ * {@code (sum E_i / u_i^2) / (sum 1 / u_i^2)} with uncertainty {@code (sum 1 / u_i^2)^-1/2} in the level's
+ * place (the sum of squares differs by a term free of the parameters), while chi^2, the degrees of freedom and
+ * the information criterion count every measurement, and each keeps its residual. {@link SeriesFit} names
+ * pairs of measurements that disagree.
+ *
  * <p><b>Known limit.</b> A limit known from elsewhere (a published ionization energy with its
  * standard uncertainty, {@link #withLimit}) enters the fit as one more datum, {@code (E_limit - L) / u_L},
  * beside the members; it counts as a datum in the information criterion and the degrees of freedom.

@@ -155,9 +155,10 @@ class SeriesFitterTest {
         RydbergSeries two = RydbergSeries.builder("x").add(10, 197000, 0.1).add(11, 197400, 0.1).build();
         RitzException e = assertThrows(RitzException.class, () -> SeriesFitter.defaults().fit(R, List.of(two)));
         assertEquals(RitzException.TOO_FEW, e.code());
+        // one measurement added twice (the same place); repeated measurements of one n: SeriesRepeatsTest
         RitzException twice = assertThrows(RitzException.class,
-                () -> RydbergSeries.builder("x").add(10, 197000, 0.1, "s.csv:3").add(10, 197001, 0.1, "s.csv:4"));
-        assertTrue(twice.getMessage().startsWith("s.csv:4: n = 10 is given twice"), twice.getMessage());
+                () -> RydbergSeries.builder("x").add(10, 197000, 0.1, "s.csv:3").add(10, 197001, 0.1, "s.csv:3"));
+        assertTrue(twice.getMessage().startsWith("s.csv:3: n = 10 of series 'x' is given twice"), twice.getMessage());
         assertThrows(RitzException.class, () -> RydbergSeries.builder("x").add(0, 1, 1));
         assertThrows(RitzException.class, () -> RydbergSeries.builder("x").add(5, 1, 0));
     }
@@ -423,14 +424,19 @@ class SeriesFitterTest {
 
     /** The README's Rb-87 example: nS1/2 and nD5/2, n = 20-40 step 2, u = 1e-4 cm^-1, no noise. */
     private static SeriesFit rubidium() {
+        return SeriesFitter.defaults().withTerms(2, 2).fit(R_RB87, rubidiumSeries(0));
+    }
+
+    /** The example's members, nD5/2 with a d4 added (0: as the example). */
+    private static List<RydbergSeries> rubidiumSeries(double d4) {
         RydbergSeries.Builder s = RydbergSeries.builder("nS1/2");
         RydbergSeries.Builder d = RydbergSeries.builder("nD5/2");
         for (int n = 20; n <= 40; n += 2) {
             // quantum defects of M. Mack et al., Phys. Rev. A 83, 052515 (2011)
             s.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT_RB87, R_RB87, List.of(3.1311807, 0.1787), n), 1e-4);
-            d.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT_RB87, R_RB87, List.of(1.3464622, -0.594), n), 1e-4);
+            d.add(n, AlkaliAtom.rydbergRitzEnergy(LIMIT_RB87, R_RB87, List.of(1.3464622, -0.594, d4), n), 1e-4);
         }
-        return SeriesFitter.defaults().withTerms(2, 2).fit(R_RB87, List.of(s.build(), d.build()));
+        return List.of(s.build(), d.build());
     }
 
     /**
@@ -457,9 +463,27 @@ class SeriesFitterTest {
             assertTrue(m.truncationPerCm() > m.fitUncertaintyPerCm(), one.toString());
             assertTrue(one.note().orElseThrow().contains("for the truncation"), one.toString());
         }
-        // the added uncertainty stays in proportion: 59 cm-1 at 6d5/2 by hand (|d2| / (6 - d0)^2 = 0.0274 times
-        // 2 R_M / n*^3 = 2140 cm-1, n* = 4.681), under 2 % of its binding energy
-        assertEquals(58.7, p.get(5).memberOrThrow().truncationPerCm(), 0.5);
+        // the truncation at 6d5/2 is the part of a next term c / (n - d0)^4 that the fit cannot absorb, r per
+        // unit c, times c's largest size. r found by refitting: the members with a small d4 = eps added,
+        // refitted with two terms; the truth at n = 6 moves by dTrue, the prediction by dFit, r = (dTrue - dFit)
+        // / eps (the first-order propagation the fit uses, checked by an actual refit). |c|: the smaller of
+        // |d2| (6 - d0)^2 (the first omitted term no larger than the last kept one at n = 6; 12.9 here) and
+        // sqrt(c'^2 + u'^2) of the fit with d4 (the data's word on it; smaller here). It was 58.7 cm-1 (the last
+        // kept term's full size), now less than half that, and still covers 6d5/2 (above)
+        double eps = 1e-3;
+        SeriesFit injected = SeriesFitter.defaults().withTerms(2, 2).fit(R_RB87, rubidiumSeries(eps));
+        double dTrue = AlkaliAtom.rydbergRitzEnergy(LIMIT_RB87, R_RB87, List.of(1.3464622, -0.594, eps), 6)
+                - AlkaliAtom.rydbergRitzEnergy(LIMIT_RB87, R_RB87, List.of(1.3464622, -0.594), 6);
+        double dFit = injected.prediction(1, 6).memberOrThrow().energyPerCm() - p.get(5).memberOrThrow().energyPerCm();
+        double r = (dTrue - dFit) / eps;
+        SeriesFit withD4 = SeriesFitter.defaults().withTerms(2, 3).fit(R_RB87, rubidiumSeries(0));
+        double[] dD = fit.defects(1);
+        double size = Math.min(Math.abs(dD[1]) * (6 - dD[0]) * (6 - dD[0]),
+                Math.hypot(withD4.defects(1)[2], withD4.defectUncertainties(1)[2]));
+        assertTrue(size < Math.abs(dD[1]) * (6 - dD[0]) * (6 - dD[0]), "the data bound the next term here");
+        double truncation = p.get(5).memberOrThrow().truncationPerCm();
+        assertEquals(size * Math.abs(r), truncation, 0.02 * truncation);
+        assertTrue(truncation < 0.5 * 58.7, "was 58.7 cm-1: " + truncation);
         assertTrue(p.get(5).memberOrThrow().uncertaintyPerCm() < 0.02 * (LIMIT_RB87 - 28687.13), p.get(5).toString());
         // at and above the lowest member nothing is added
         assertEquals(0, fit.predictions(20, 60).get(1).memberOrThrow().truncationPerCm());
