@@ -76,7 +76,6 @@ public final class DataContext {
     private final Object lock = new Object();
     private volatile NuclearData nuclear;
     private volatile List<Species> alkaliSpecies;
-    private volatile Map<Integer, ModelPotential> potentials;
     private final ConcurrentMap<Species, AlkaliAtom> alkalis = new ConcurrentHashMap<>();
 
     private DataContext(DataRegistry registry) {
@@ -268,7 +267,8 @@ public final class DataContext {
         // the built-in level tables are the natural element's; the isotope's own D-line centroids replace
         // their first p levels (a user's or third party's level table is taken as it is)
         if (defects.levelsId().isPresent()
-                && registry.load(defects.levelsId().get()) == RydbergData.builtIn().byId().get(defects.levelsId().get())) {
+                && registry.load(defects.levelsId().get()) == RydbergData.builtInSet(defects.levelsId().get())
+                        .orElse(null)) {
             measured = AlkaliHyperfine.builtIn().withResonanceLevels(species, measured);
         }
         measured = withOwnLevels(listing, defects.levelsId().orElse(null), species, measured);
@@ -392,17 +392,7 @@ public final class DataContext {
      * @throws ReferenceDataException when the element has none
      */
     public ModelPotential modelPotential(Species species) {
-        Map<Integer, ModelPotential> read = potentials;
-        if (read == null) {
-            synchronized (lock) {
-                read = potentials;
-                if (read == null) {
-                    read = RydbergData.readPotentials();
-                    potentials = read;
-                }
-            }
-        }
-        ModelPotential potential = read.get(species.z());
+        ModelPotential potential = RydbergData.potentials().get(species.z());
         if (potential == null || species.charge() != 0) {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no model potential for "
                     + species.notation() + "; available for Li, Na, K, Rb, Cs");
