@@ -75,10 +75,11 @@ import org.ritzwerk.refdata.internal.RydbergData;
  * built-in files' headers; a set's rows are read when the set is first asked for. The built-in
  * files are read at most once per JVM and the sets shared by every built-in context (they cannot
  * change, and the sets are immutable), so in a warm JVM a new context's first
- * {@link #nucleus} takes well under a millisecond and its first {@link #alkaliAtom} about as long
- * as assembling the atom; the first built-in lookup in a fresh JVM takes a few hundred
- * milliseconds, mostly class loading (README, "Using the library", has figures). A user's file is
- * read and checked once, by {@link #withUserFile(Path)}.
+ * {@link #nucleus} takes about a millisecond or less and its first {@link #alkaliAtom} about as
+ * long as assembling the atom; the first built-in lookup in a fresh JVM takes a few hundred
+ * milliseconds, and the first line or level list read about a second more, mostly class loading
+ * (README, "Using the library", has figures). A user's file is read and checked once, by
+ * {@link #withUserFile(Path)}.
  *
  * <p>Typical use:
  * <pre>{@code
