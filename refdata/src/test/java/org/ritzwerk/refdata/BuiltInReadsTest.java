@@ -2,6 +2,7 @@ package org.ritzwerk.refdata;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertSame;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.File;
@@ -9,13 +10,18 @@ import java.io.FilterInputStream;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
+import java.lang.reflect.InvocationTargetException;
 import java.net.MalformedURLException;
 import java.net.URL;
 import java.net.URLClassLoader;
 import java.net.URLConnection;
 import java.net.URLStreamHandler;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
 import java.util.concurrent.Callable;
@@ -25,6 +31,7 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.stream.Collectors;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataSet;
 
@@ -75,6 +82,34 @@ class BuiltInReadsTest {
         try (Fresh fresh = new Fresh()) {
             fresh.call(fresh.context(), "lampLines", fresh.species("Ne I"));
             assertEquals(Set.of("lamps/lamp-ne-i.csv"), fresh.readOutside("nuclear/"));
+        }
+    }
+
+    @Test
+    void aBrokenBuiltInFileIsReportedWhenItsSetIsUsedWithFileAndLine(@TempDir Path folder) throws Exception {
+        String resource = "lamps/lamp-ne-i.csv";
+        String text;
+        try (InputStream in = DataContext.class.getResourceAsStream("/" + PREFIX + resource)) {
+            text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        }
+        assertTrue(text.split("\n", -1)[12].startsWith("Ne I,540.05618,"), "line 13 of " + resource);
+        Path broken = folder.resolve("lamp-ne-i.csv");
+        Files.writeString(broken, text.replace("Ne I,540.05618,", "Ne I,540.0x5618,"));
+        try (Fresh fresh = new Fresh(Map.of(PREFIX + resource, broken))) {
+            Object context = fresh.context();
+            // listing reads headers only: the other lookups work
+            fresh.call(context, "nucleus", fresh.species("H I"));
+            fresh.call(context, "lampLines", fresh.species("Ar I"));
+            // the broken set is refused when used, naming the file and the line
+            InvocationTargetException e = assertThrows(InvocationTargetException.class,
+                    () -> fresh.call(context, "lampLines", fresh.species("Ne I")));
+            Throwable cause = e.getCause();
+            assertEquals(ReferenceDataException.class.getName(), cause.getClass().getName(), cause.toString());
+            assertEquals(ReferenceDataException.BAD_BUILT_IN, cause.getClass().getMethod("code").invoke(cause));
+            String message = cause.getMessage();
+            assertTrue(message.startsWith("built-in data file " + resource + " does not read"), message);
+            assertTrue(message.contains(resource + ":13:"), message);
+            assertTrue(message.contains("540.0x5618"), message);
         }
     }
 
@@ -134,6 +169,11 @@ class BuiltInReadsTest {
         private final URLClassLoader loader;
 
         Fresh() {
+            this(Map.of());
+        }
+
+        /** @param replaced resources (full names) to read from other files instead */
+        Fresh(Map<String, Path> replaced) {
             List<URL> urls = new ArrayList<>();
             for (String property : List.of("jdk.module.path", "java.class.path")) {
                 String path = System.getProperty(property, "");
@@ -176,6 +216,13 @@ class BuiltInReadsTest {
                 @Override
                 public URL findResource(String name) {
                     URL url = super.findResource(name);
+                    if (url != null && replaced.containsKey(name)) {
+                        try {
+                            url = replaced.get(name).toUri().toURL();
+                        } catch (MalformedURLException e) {
+                            throw new UncheckedIOException(e);
+                        }
+                    }
                     if (url == null || !name.startsWith(PREFIX) || !name.endsWith(".csv")) {
                         return url;
                     }
@@ -243,7 +290,8 @@ class BuiltInReadsTest {
 
         /** @return the files read in full outside the given folder (below the data root) */
         Set<String> readOutside(String folder) {
-            return read.stream().filter(name -> !name.startsWith(folder)).collect(Collectors.toCollection(TreeSet::new));
+            return read.stream().filter(name -> !name.startsWith(folder))
+                    .collect(Collectors.toCollection(TreeSet::new));
         }
 
         @Override

@@ -11,12 +11,14 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ConcurrentMap;
+import java.util.function.Function;
 import java.util.function.Supplier;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.Provenance;
+import org.ritzwerk.refdata.DataFileException;
 import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
@@ -157,6 +159,26 @@ public final class BuiltInFiles {
 
     private static String describe(DataSetInfo info) {
         return "'" + info.id() + "' (" + info.kind().id() + ", species " + info.species() + ")";
+    }
+
+    /**
+     * @param resource a built-in file below {@link BuiltInCsv#RESOURCES}
+     * @param reader   reads its set from the bytes (one of the user-file readers)
+     * @param <T>      the set's type
+     * @return the set
+     * @throws ReferenceDataException ({@link ReferenceDataException#BAD_BUILT_IN}) when the file is
+     *                                missing or does not read, with every problem the reader found
+     *                                (file, line and the raw line)
+     */
+    public static <T> T read(String resource, Function<InputStream, T> reader) {
+        try (InputStream in = open(resource)) {
+            return reader.apply(in);
+        } catch (DataFileException e) {
+            throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, "built-in data file " + resource
+                    + " does not read (a packaging error): " + e.getMessage());
+        } catch (IOException e) {
+            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
+        }
     }
 
     /**

@@ -1,8 +1,5 @@
 package org.ritzwerk.refdata.internal;
 
-import java.io.IOException;
-import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -82,10 +79,6 @@ public final class LampProvider implements ReferenceDataProvider {
     }
 
     private static LineList read(String resource) {
-        try (InputStream in = BuiltInFiles.open(resource)) {
-            return LineListFiles.read(in, resource, DataKind.LAMP_LINES);
-        } catch (IOException e) {
-            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
-        }
+        return BuiltInFiles.read(resource, in -> LineListFiles.read(in, resource, DataKind.LAMP_LINES));
     }
 }

@@ -1,8 +1,5 @@
 package org.ritzwerk.refdata.internal;
 
-import java.io.IOException;
-import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -86,11 +83,7 @@ public final class LevelProvider implements ReferenceDataProvider {
     }
 
     private static DataSet read(String id, String resource) {
-        try (InputStream in = BuiltInFiles.open(resource)) {
-            return kind(id) == DataKind.LINES ? LineListFiles.read(in, resource, DataKind.LINES)
-                    : LevelListFiles.read(in, resource);
-        } catch (IOException e) {
-            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
-        }
+        return BuiltInFiles.read(resource, in -> kind(id) == DataKind.LINES
+                ? LineListFiles.read(in, resource, DataKind.LINES) : LevelListFiles.read(in, resource));
     }
 }

@@ -1,8 +1,6 @@
 package org.ritzwerk.refdata.internal;
 
-import java.io.IOException;
 import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -113,23 +111,13 @@ public final class RydbergData {
 
     private static Entry readEntry(String stem) {
         Listed listed = listing().get(stem);
-        QuantumDefectFiles.Content content;
         String qd = listed.defectsFile();
-        try (InputStream in = open(qd)) {
-            content = QuantumDefectFiles.read(in, qd);
-        } catch (IOException e) {
-            throw new UncheckedIOException(qd + ": " + e.getMessage(), e);
-        }
+        QuantumDefectFiles.Content content = BuiltInFiles.read(qd, in -> QuantumDefectFiles.read(in, qd));
         BuiltInFiles.checked(qd, listed.defects(), content.defects());
         String levelsId = content.defects().levelsId().orElseThrow(() -> new ReferenceDataException(
                 ReferenceDataException.BAD_BUILT_IN, qd + ": names no levels set"));
         String lv = "rydberg/" + levelsId + ".csv";
-        LevelList levels;
-        try (InputStream in = open(lv)) {
-            levels = LevelListFiles.read(in, lv);
-        } catch (IOException e) {
-            throw new UncheckedIOException(lv + ": " + e.getMessage(), e);
-        }
+        LevelList levels = BuiltInFiles.read(lv, in -> LevelListFiles.read(in, lv));
         if (levels.unit() != Unit.PER_CENTIMETRE) {
             throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, lv + ": energies must be in cm-1");
         }
@@ -274,16 +262,6 @@ public final class RydbergData {
     /** @return the isotopes covered, e.g. Rb-87 I; immutable */
     public List<Species> species() {
         return List.copyOf(entries.keySet());
-    }
-
-    /** @return what every set is (quantum defects and level tables), for the provider */
-    List<DataSetInfo> infos() {
-        List<DataSetInfo> infos = new ArrayList<>();
-        for (Entry e : entries.values()) {
-            infos.add(e.content().defects().info());
-            infos.add(e.levels().info());
-        }
-        return infos;
     }
 
     /** @return the sets by id */
