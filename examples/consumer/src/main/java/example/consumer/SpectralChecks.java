@@ -18,6 +18,10 @@ import org.ritzwerk.refdata.DataContext;
  * wavelength into vacuum (api), the Balmer-alpha line of H I from the built-in nuclear data
  * (refdata + engine), and a dispersion fit of a spectrometer on invented (pixel, wavelength)
  * pairs (engine, through its numerics dependency).
+ *
+ * <p>The program makes one {@link DataContext} in {@link #main} and passes it to every call that
+ * needs data: a context reads each data set when first asked and keeps it, and is safe to use from
+ * many threads, so building one per call would only repeat that first-use work.
  */
 public final class SpectralChecks {
 
@@ -33,11 +37,12 @@ public final class SpectralChecks {
     }
 
     /**
+     * @param data the program's data context (made once and shared), for the hydrogen nucleus
      * @return the n = 3 -> 2 multiplet of H I (the QED tier), the only line of n &lt;= 3 between
      *         650 and 660 nm in air
      */
-    public static LineTable balmerAlpha() {
-        Nucleus hydrogen = DataContext.builtIn().nucleus(Species.parse("H I"));
+    public static LineTable balmerAlpha(DataContext data) {
+        Nucleus hydrogen = data.nucleus(Species.parse("H I"));
         HydrogenLikeLines lines = HydrogenLikeLines.of(HydrogenLikeModel.of(hydrogen, Tier.QED));
         return lines.multiplets(3, Wavelength.ofNanometres(650, Medium.air()),
                 Wavelength.ofNanometres(660, Medium.air()));
@@ -82,8 +87,9 @@ public final class SpectralChecks {
      * @param args none
      */
     public static void main(String[] args) {
+        DataContext data = DataContext.builtIn(); // one context for the whole program, shared
         System.out.println("656.279 nm air = " + vacuumNanometres(656.279) + " nm vacuum");
-        LineTable alpha = balmerAlpha();
+        LineTable alpha = balmerAlpha(data);
         System.out.println("H I " + alpha.lineName(0) + ": " + airNanometres(alpha, 0) + " nm air, A = "
                 + alpha.einsteinA(0) + " s-1");
         DispersionSolution solution = inventedCalibration();

@@ -12,6 +12,9 @@ import org.ritzwerk.refdata.DataContext;
 /** Runs the library calls of {@link SpectralChecks} against the installed artifacts. */
 class SpectralChecksTest {
 
+    /** The data context these calls share, made once and passed in, as a program does. */
+    private final DataContext data = DataContext.builtIn();
+
     @Test
     void ritzwerkIsOnTheModulePath() {
         // Named modules, not jars on the class path: the artifacts' module descriptors resolved.
@@ -37,7 +40,7 @@ class SpectralChecksTest {
         // H I Balmer alpha, 656.279 nm in air (NIST Atomic Spectra Database, from memory);
         // checked against the Rydberg formula: R_H (1/4 - 1/9) = 109677.58 cm-1 * 5/36
         // = 15233.0 cm-1, i.e. 656.47 nm in vacuum, 656.29 nm in air, before fine structure.
-        LineTable alpha = SpectralChecks.balmerAlpha();
+        LineTable alpha = SpectralChecks.balmerAlpha(data);
         assertEquals(1, alpha.size());
         assertEquals("Balmer alpha", alpha.lineName(0));
         assertEquals(3, alpha.upperN(0));

@@ -68,7 +68,25 @@ import org.ritzwerk.refdata.internal.RydbergData;
  * static field. Everything is loaded on first use and kept, once, however many threads ask; all
  * methods are safe to call from many threads.
  *
- * <p>Typical use: {@code AlkaliAtom rb = DataContext.builtIn().alkaliAtom(Species.parse("Rb-87 I"));}
+ * <p><b>Make one context and share it.</b> Build a context once (at start-up, or per user file set)
+ * and pass it to every call and thread that needs data; do not build one per call. What a context
+ * has read (its nuclear data, each data set, each alkali atom it assembled) is kept in it, so a
+ * new context repeats that work. What its first use costs: listing the data sets reads only the
+ * built-in files' headers; a set's rows are read when the set is first asked for. The built-in
+ * files are read at most once per JVM and the sets shared by every built-in context (they cannot
+ * change, and the sets are immutable), so in a warm JVM a new context's first
+ * {@link #nucleus} takes about a millisecond or less and its first {@link #alkaliAtom} about as
+ * long as assembling the atom; the first built-in lookup in a fresh JVM takes a few hundred
+ * milliseconds, and the first line or level list read about a second more, mostly class loading
+ * (README, "Using the library", has figures). A user's file is read and checked once, by
+ * {@link #withUserFile(Path)}.
+ *
+ * <p>Typical use:
+ * <pre>{@code
+ * DataContext data = DataContext.builtIn();                 // once, shared by every call and thread
+ * AlkaliAtom rb = data.alkaliAtom(Species.parse("Rb-87 I"));
+ * Nucleus hydrogen = data.nucleus(Species.parse("H I"));
+ * }</pre>
  */
 public final class DataContext {
 
@@ -76,7 +94,6 @@ public final class DataContext {
     private final Object lock = new Object();
     private volatile NuclearData nuclear;
     private volatile List<Species> alkaliSpecies;
-    private volatile Map<Integer, ModelPotential> potentials;
     private final ConcurrentMap<Species, AlkaliAtom> alkalis = new ConcurrentHashMap<>();
 
     private DataContext(DataRegistry registry) {
@@ -91,7 +108,12 @@ public final class DataContext {
         return new DataContext(registry);
     }
 
-    /** @return a new context of Ritzwerk's built-in data only ({@link DataRegistry#builtIn()}) */
+    /**
+     * @return a new context of Ritzwerk's built-in data only ({@link DataRegistry#builtIn()}); make
+     *         one and share it (see the class comment): the built-in files it reads are shared with
+     *         every other built-in context of the JVM, but what it assembles (nuclear data layers,
+     *         alkali atoms) is its own
+     */
     public static DataContext builtIn() {
         return new DataContext(DataRegistry.builtIn());
     }
@@ -268,7 +290,8 @@ public final class DataContext {
         // the built-in level tables are the natural element's; the isotope's own D-line centroids replace
         // their first p levels (a user's or third party's level table is taken as it is)
         if (defects.levelsId().isPresent()
-                && registry.load(defects.levelsId().get()) == RydbergData.builtIn().byId().get(defects.levelsId().get())) {
+                && registry.load(defects.levelsId().get()) == RydbergData.builtInSet(defects.levelsId().get())
+                        .orElse(null)) {
             measured = AlkaliHyperfine.builtIn().withResonanceLevels(species, measured);
         }
         measured = withOwnLevels(listing, defects.levelsId().orElse(null), species, measured);
@@ -392,17 +415,7 @@ public final class DataContext {
      * @throws ReferenceDataException when the element has none
      */
     public ModelPotential modelPotential(Species species) {
-        Map<Integer, ModelPotential> read = potentials;
-        if (read == null) {
-            synchronized (lock) {
-                read = potentials;
-                if (read == null) {
-                    read = RydbergData.readPotentials();
-                    potentials = read;
-                }
-            }
-        }
-        ModelPotential potential = read.get(species.z());
+        ModelPotential potential = RydbergData.potentials().get(species.z());
         if (potential == null || species.charge() != 0) {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no model potential for "
                     + species.notation() + "; available for Li, Na, K, Rb, Cs");

@@ -34,7 +34,9 @@ import org.ritzwerk.refdata.internal.SetDetails;
  * <p>A registry is an immutable value: {@link #withUserFile(Path)} returns a new one. Nothing is
  * global; {@link #discoverDefault()} is the opt-in way to find every provider on the module or
  * class path. Data sets are loaded on first use and cached; all methods are safe to call from
- * many threads.
+ * many threads. Listing ({@link #list()}) asks each provider what it offers without loading
+ * anything: the built-in providers read their files' headers only, and a built-in set's rows are
+ * read when it is first loaded, once per JVM, shared by every registry.
  *
  * <p>Code that needs typed data (nuclei, alkali atoms, lamp sets, line lists) takes a
  * {@link DataContext} built from a registry ({@link DataContext#of(DataRegistry)}), not a registry

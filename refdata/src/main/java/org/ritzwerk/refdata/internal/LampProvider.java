@@ -1,13 +1,10 @@
 package org.ritzwerk.refdata.internal;
 
-import java.io.IOException;
-import java.io.InputStream;
-import java.io.UncheckedIOException;
-import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
@@ -23,12 +20,14 @@ import org.ritzwerk.refdata.ReferenceDataException;
  * Data (Sansonetti &amp; Martin 2005), marked from memory, each row carrying the independent check
  * it passed (see {@code lamps/README.md}); stored in the project's own line-list format under
  * {@code lamps/} with the full citation in each header.
- * Users should check their own lamp's data. Thread-safe; files are read when a set is loaded.
+ * Users should check their own lamp's data. Thread-safe. Listing reads the files' headers only; a set's
+ * rows are read when it is first loaded, once per JVM, and shared by every registry ({@link BuiltInFiles}).
  */
 public final class LampProvider implements ReferenceDataProvider {
 
-    private static final List<String> FILES = List.of("lamp-hg-i", "lamp-ne-i", "lamp-ar-i", "lamp-kr-i", "lamp-xe-i",
-            "lamp-cd-i", "lamp-zn-i");
+    /** Each set's id and the species its rows cover. */
+    private static final Map<String, String> FILES = orderedMap("lamp-hg-i", "Hg I", "lamp-ne-i", "Ne I",
+            "lamp-ar-i", "Ar I", "lamp-kr-i", "Kr I", "lamp-xe-i", "Xe I", "lamp-cd-i", "Cd I", "lamp-zn-i", "Zn I");
 
     @Override
     public String id() {
@@ -40,47 +39,46 @@ public final class LampProvider implements ReferenceDataProvider {
         return Origin.BUILT_IN;
     }
 
-    /** The sets, read from the jar on first use (listing needs their headers anyway). */
-    private volatile Map<String, LineList> sets;
-
+    /** @return every set's info, from the files' headers (no row is read), once per JVM */
     @Override
     public List<DataSetInfo> dataSets() {
-        List<DataSetInfo> infos = new ArrayList<>();
-        sets().values().forEach(set -> infos.add(set.info()));
-        return infos;
+        return List.copyOf(infos().values());
     }
 
-    private Map<String, LineList> sets() {
-        Map<String, LineList> read = sets;
-        if (read == null) {
-            Map<String, LineList> all = new LinkedHashMap<>();
-            for (String id : FILES) {
-                all.put(id, read(id));
-            }
-            read = Collections.unmodifiableMap(all);
-            sets = read;
-        }
-        return read;
+    private static Map<String, DataSetInfo> infos() {
+        return BuiltInFiles.shared("lamps/", () -> {
+            Map<String, DataSetInfo> infos = new LinkedHashMap<>();
+            FILES.forEach((id, species) -> infos.put(id, BuiltInFiles.listed(resource(id), DataKind.LAMP_LINES,
+                    List.of(Species.parse(species)))));
+            return Collections.unmodifiableMap(infos);
+        });
     }
 
+    /** @return the set, read from the jar when first loaded in this JVM and shared from then on */
     @Override
     public DataSet load(String dataSetId) {
-        if (!FILES.contains(dataSetId)) {
+        if (!FILES.containsKey(dataSetId)) {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
-                    "no lamp set '" + dataSetId + "'; known: " + String.join(", ", FILES));
+                    "no lamp set '" + dataSetId + "'; known: " + String.join(", ", FILES.keySet()));
         }
-        return sets().get(dataSetId);
+        String resource = resource(dataSetId);
+        return BuiltInFiles.shared(resource, () -> BuiltInFiles.checked(resource, infos().get(dataSetId),
+                read(resource)));
     }
 
-    private static LineList read(String id) {
-        String resource = "lamps/" + id + ".csv";
-        try (InputStream in = LampProvider.class.getResourceAsStream(BuiltInCsv.RESOURCES + resource)) {
-            if (in == null) {
-                throw new IllegalStateException("built-in lamp file missing from the jar: " + resource);
-            }
-            return LineListFiles.read(in, resource, DataKind.LAMP_LINES);
-        } catch (IOException e) {
-            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
+    private static String resource(String id) {
+        return "lamps/" + id + ".csv";
+    }
+
+    static Map<String, String> orderedMap(String... keysAndValues) {
+        Map<String, String> map = new LinkedHashMap<>();
+        for (int k = 0; k < keysAndValues.length; k += 2) {
+            map.put(keysAndValues[k], keysAndValues[k + 1]);
         }
+        return Collections.unmodifiableMap(map);
+    }
+
+    private static LineList read(String resource) {
+        return BuiltInFiles.read(resource, in -> LineListFiles.read(in, resource, DataKind.LAMP_LINES));
     }
 }

@@ -1,13 +1,10 @@
 package org.ritzwerk.refdata.internal;
 
-import java.io.IOException;
-import java.io.InputStream;
-import java.io.UncheckedIOException;
-import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
@@ -30,15 +27,15 @@ import org.ritzwerk.refdata.ReferenceDataException;
  * ({@code lines-he-i}: A between the same level labels, by the Coulomb approximation from the level
  * energies, the lines to the ground level from memory; see {@code levels/README.md}), which
  * {@link DataContext#transitionProbabilities} finds. The Sr list's covariance comes as shared
- * uncertainty components (935 contributions of 17 components, about half the file), cheap enough to
- * read whole when the sets are first listed. Thread-safe; files are read on first use.
+ * uncertainty components (935 contributions of 17 components, about half the file). Thread-safe.
+ * Listing reads the files' headers only; a set's rows (and the Sr covariance) are read when it is
+ * first loaded, once per JVM, and shared by every registry ({@link BuiltInFiles}).
  */
 public final class LevelProvider implements ReferenceDataProvider {
 
-    private static final List<String> FILES = List.of("levels-he-i", "lines-he-i", "levels-sr-i");
-
-    /** The sets, read from the jar on first use (listing needs their headers anyway). */
-    private volatile Map<String, DataSet> sets;
+    /** Each set's id and the species its rows cover. */
+    private static final Map<String, String> FILES = LampProvider.orderedMap("levels-he-i", "He I", "lines-he-i",
+            "He I", "levels-sr-i", "Sr-88 I");
 
     @Override
     public String id() {
@@ -50,45 +47,43 @@ public final class LevelProvider implements ReferenceDataProvider {
         return Origin.BUILT_IN;
     }
 
+    /** @return every set's info, from the files' headers (no row is read), once per JVM */
     @Override
     public List<DataSetInfo> dataSets() {
-        List<DataSetInfo> infos = new ArrayList<>();
-        sets().values().forEach(set -> infos.add(set.info()));
-        return infos;
+        return List.copyOf(infos().values());
     }
 
+    private static Map<String, DataSetInfo> infos() {
+        return BuiltInFiles.shared("levels/", () -> {
+            Map<String, DataSetInfo> infos = new LinkedHashMap<>();
+            FILES.forEach((id, species) -> infos.put(id, BuiltInFiles.listed(resource(id), kind(id),
+                    List.of(Species.parse(species)))));
+            return Collections.unmodifiableMap(infos);
+        });
+    }
+
+    /** @return the set, read from the jar when first loaded in this JVM and shared from then on */
     @Override
     public DataSet load(String dataSetId) {
-        if (!FILES.contains(dataSetId)) {
+        if (!FILES.containsKey(dataSetId)) {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
-                    "no level set '" + dataSetId + "'; known: " + String.join(", ", FILES));
+                    "no level set '" + dataSetId + "'; known: " + String.join(", ", FILES.keySet()));
         }
-        return sets().get(dataSetId);
+        String resource = resource(dataSetId);
+        return BuiltInFiles.shared(resource, () -> BuiltInFiles.checked(resource, infos().get(dataSetId),
+                read(dataSetId, resource)));
     }
 
-    private Map<String, DataSet> sets() {
-        Map<String, DataSet> read = sets;
-        if (read == null) {
-            Map<String, DataSet> all = new LinkedHashMap<>();
-            for (String id : FILES) {
-                all.put(id, read(id));
-            }
-            read = Collections.unmodifiableMap(all);
-            sets = read;
-        }
-        return read;
+    private static String resource(String id) {
+        return "levels/" + id + ".csv";
     }
 
-    private static DataSet read(String id) {
-        String resource = "levels/" + id + ".csv";
-        try (InputStream in = LevelProvider.class.getResourceAsStream(BuiltInCsv.RESOURCES + resource)) {
-            if (in == null) {
-                throw new IllegalStateException("built-in level file missing from the jar: " + resource);
-            }
-            return id.startsWith("lines-") ? LineListFiles.read(in, resource, DataKind.LINES)
-                    : LevelListFiles.read(in, resource);
-        } catch (IOException e) {
-            throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
-        }
+    private static DataKind kind(String id) {
+        return id.startsWith("lines-") ? DataKind.LINES : DataKind.LEVELS;
+    }
+
+    private static DataSet read(String id, String resource) {
+        return BuiltInFiles.read(resource, in -> kind(id) == DataKind.LINES
+                ? LineListFiles.read(in, resource, DataKind.LINES) : LevelListFiles.read(in, resource));
     }
 }

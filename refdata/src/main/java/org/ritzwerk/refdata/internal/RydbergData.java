@@ -1,19 +1,20 @@
 package org.ritzwerk.refdata.internal;
 
-import java.io.IOException;
 import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Collectors;
 import org.ritzwerk.atom.Elements;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
+import org.ritzwerk.data.DataKind;
+import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
 import org.ritzwerk.data.LevelList;
 import org.ritzwerk.data.MeasuredLevel;
@@ -45,8 +46,10 @@ import org.ritzwerk.refdata.ReferenceDataException;
  *
  * <p>Typical use: {@code AlkaliAtom rb = RydbergData.builtIn().atom(Species.parse("Rb-87 I"));}
  *
- * <p>The files are read once, on first use of {@link #builtIn()}; the object is immutable and
- * thread-safe.
+ * <p>The files are read once per JVM: an isotope's two files when its set is first loaded
+ * ({@link #builtInSet}, which the built-in provider uses; listing reads the files' headers only), all
+ * of them on first use of {@link #builtIn()}; the sets are shared ({@link BuiltInFiles}), and the
+ * object is immutable and thread-safe.
  *
  * <p><b>Built-in default, not a context.</b> {@link #builtIn()} is kept for compatibility and for
  * the built-in provider. Code that needs alkali atoms takes them from a {@link DataContext}
@@ -95,29 +98,103 @@ public final class RydbergData {
     private static RydbergData load() {
         Map<Species, Entry> entries = new LinkedHashMap<>();
         for (String stem : STEMS) {
-            QuantumDefectFiles.Content content;
-            String qd = "rydberg/quantum-defects-" + stem + ".csv";
-            try (InputStream in = open(qd)) {
-                content = QuantumDefectFiles.read(in, qd);
-            } catch (IOException e) {
-                throw new UncheckedIOException(qd + ": " + e.getMessage(), e);
-            }
-            String levelsId = content.defects().levelsId().orElseThrow(() -> new ReferenceDataException(
-                    ReferenceDataException.BAD_BUILT_IN, qd + ": names no levels set"));
-            String lv = "rydberg/" + levelsId + ".csv";
-            LevelList levels;
-            try (InputStream in = open(lv)) {
-                levels = LevelListFiles.read(in, lv);
-            } catch (IOException e) {
-                throw new UncheckedIOException(lv + ": " + e.getMessage(), e);
-            }
-            if (levels.unit() != Unit.PER_CENTIMETRE) {
-                throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, lv + ": energies must be in cm-1");
-            }
-            measuredLevels(levels); // checks every label now
-            entries.put(content.defects().species(), new Entry(content, levels));
+            Entry entry = entry(stem);
+            entries.put(entry.content().defects().species(), entry);
         }
-        return new RydbergData(Collections.unmodifiableMap(entries), readPotentials());
+        return new RydbergData(Collections.unmodifiableMap(entries), potentials());
+    }
+
+    /** One isotope's quantum-defect set and levels, read when first used and shared in the JVM. */
+    private static Entry entry(String stem) {
+        return BuiltInFiles.shared("rydberg/" + stem, () -> readEntry(stem));
+    }
+
+    private static Entry readEntry(String stem) {
+        Listed listed = listing().get(stem);
+        String qd = listed.defectsFile();
+        QuantumDefectFiles.Content content = BuiltInFiles.read(qd, in -> QuantumDefectFiles.read(in, qd));
+        BuiltInFiles.checked(qd, listed.defects(), content.defects());
+        String levelsId = content.defects().levelsId().orElseThrow(() -> new ReferenceDataException(
+                ReferenceDataException.BAD_BUILT_IN, qd + ": names no levels set"));
+        String lv = "rydberg/" + levelsId + ".csv";
+        LevelList levels = BuiltInFiles.read(lv, in -> LevelListFiles.read(in, lv));
+        if (levels.unit() != Unit.PER_CENTIMETRE) {
+            throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, lv + ": energies must be in cm-1");
+        }
+        BuiltInFiles.checked(lv, listed.levels(), levels);
+        measuredLevels(levels); // checks every label now
+        return new Entry(content, levels);
+    }
+
+    /** What one isotope's two files are, from their headers. */
+    private record Listed(String defectsFile, DataSetInfo defects, DataSetInfo levels) {
+    }
+
+    /** @return each isotope's two sets as listed, by file stem, from the files' headers only; once per JVM */
+    private static Map<String, Listed> listing() {
+        return BuiltInFiles.shared("rydberg/", () -> {
+            Map<String, Listed> listed = new LinkedHashMap<>();
+            for (String stem : STEMS) {
+                String qd = "rydberg/quantum-defects-" + stem + ".csv";
+                Map<String, String> header = BuiltInFiles.header(qd);
+                Species species;
+                try {
+                    species = Species.parse(header.getOrDefault("species", ""));
+                } catch (IllegalArgumentException e) {
+                    throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, qd + ": species: "
+                            + e.getMessage());
+                }
+                String levelsId = header.getOrDefault("levels", "");
+                if (!DataSetInfo.isValidId(levelsId)) {
+                    throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, qd + ": names no levels set");
+                }
+                String lv = "rydberg/" + levelsId + ".csv";
+                listed.put(stem, new Listed(qd, BuiltInFiles.listed(qd, header, DataKind.QUANTUM_DEFECTS,
+                        List.of(species)), BuiltInFiles.listed(lv, DataKind.LEVELS, List.of(species))));
+            }
+            return Collections.unmodifiableMap(listed);
+        });
+    }
+
+    /**
+     * @return what every built-in set is (quantum defects and level tables, in file order), from the
+     *         files' headers without reading their rows, for the provider
+     */
+    static List<DataSetInfo> listedInfos() {
+        List<DataSetInfo> infos = new ArrayList<>();
+        for (Listed listed : listing().values()) {
+            infos.add(listed.defects());
+            infos.add(listed.levels());
+        }
+        return infos;
+    }
+
+    /**
+     * @param id a data set id
+     * @return the built-in quantum-defect set or level table of that id, reading only its isotope's
+     *         two files (once per JVM, the same instance {@link #builtIn()} holds); empty when no
+     *         built-in set has the id
+     */
+    public static Optional<DataSet> builtInSet(String id) {
+        for (Map.Entry<String, Listed> listed : listing().entrySet()) {
+            if (listed.getValue().defects().id().equals(id)) {
+                return Optional.of(entry(listed.getKey()).content().defects());
+            }
+            if (listed.getValue().levels().id().equals(id)) {
+                return Optional.of(entry(listed.getKey()).levels());
+            }
+        }
+        return Optional.empty();
+    }
+
+    /** @return the ids of the built-in sets, in file order */
+    static List<String> builtInIds() {
+        return listedInfos().stream().map(DataSetInfo::id).collect(Collectors.toList());
+    }
+
+    /** @return the model potentials of {@link #readPotentials()}, read once per JVM and shared */
+    public static Map<Integer, ModelPotential> potentials() {
+        return BuiltInFiles.shared("rydberg/model-potentials.csv", RydbergData::readPotentials);
     }
 
     /** The model-potential file format name. */
@@ -185,16 +262,6 @@ public final class RydbergData {
     /** @return the isotopes covered, e.g. Rb-87 I; immutable */
     public List<Species> species() {
         return List.copyOf(entries.keySet());
-    }
-
-    /** @return what every set is (quantum defects and level tables), for the provider */
-    List<DataSetInfo> infos() {
-        List<DataSetInfo> infos = new ArrayList<>();
-        for (Entry e : entries.values()) {
-            infos.add(e.content().defects().info());
-            infos.add(e.levels().info());
-        }
-        return infos;
     }
 
     /** @return the sets by id */

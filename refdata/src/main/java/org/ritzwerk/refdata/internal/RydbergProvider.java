@@ -11,7 +11,9 @@ import org.ritzwerk.refdata.ReferenceDataException;
  * The built-in Rydberg data ({@link RydbergData}) as a provider: quantum-defect sets
  * {@code quantum-defects-<atom>} and measured low levels {@code levels-<atom>} for Li-6, Li-7, Na-23,
  * K-39, K-40, K-41, Rb-85, Rb-87 and Cs-133. Each quantum-defect record carries its core polarizabilities and
- * the id of its levels set, as a third party's may. Thread-safe; the files are read on first use.
+ * the id of its levels set, as a third party's may. Thread-safe. Listing reads the files' headers
+ * only; an isotope's two files are read when one of its sets is first loaded, once per JVM, and
+ * shared by every registry ({@link BuiltInFiles}).
  */
 public final class RydbergProvider implements ReferenceDataProvider {
 
@@ -27,16 +29,13 @@ public final class RydbergProvider implements ReferenceDataProvider {
 
     @Override
     public List<DataSetInfo> dataSets() {
-        return RydbergData.builtIn().infos();
+        return RydbergData.listedInfos();
     }
 
     @Override
     public DataSet load(String dataSetId) {
-        Object set = RydbergData.builtIn().byId().get(dataSetId);
-        if (set == null) {
-            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no Rydberg set '" + dataSetId
-                    + "'; known: " + String.join(", ", RydbergData.builtIn().byId().keySet()));
-        }
-        return (DataSet) set;
+        return RydbergData.builtInSet(dataSetId).orElseThrow(() -> new ReferenceDataException(
+                ReferenceDataException.UNKNOWN_DATA_SET, "no Rydberg set '" + dataSetId + "'; known: "
+                        + String.join(", ", RydbergData.builtInIds())));
     }
 }
