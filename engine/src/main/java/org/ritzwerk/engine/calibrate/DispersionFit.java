@@ -357,8 +357,12 @@ public final class DispersionFit {
             without[end] = false;
             Pass lowWithout = weightedFit(x, pixelSigma, wavelengthNm, lineSigma, without, d - 1, half, weighted);
             Pass highWithout = weightedFit(x, pixelSigma, wavelengthNm, lineSigma, without, d, half, weighted);
-            if (lowWithout == null || highWithout == null || !(DispersionSolution.fTestProbability(
-                    fRatio(lowWithout, highWithout, used - 1), used - d - 2) < DispersionSolution.STRUCTURE_PROBABILITY)) {
+            if (lowWithout == null || highWithout == null) {
+                return false;
+            }
+            double probability = DispersionSolution.fTestProbability(fRatio(lowWithout, highWithout, used - 1),
+                    used - d - 2);
+            if (!(probability < DispersionSolution.STRUCTURE_PROBABILITY)) {
                 return false;
             }
         }
