@@ -99,7 +99,7 @@ final class CalibrateCommand implements Callable<Integer> {
             description = "Polynomial degree, or auto (chosen by AICc up to --max-degree). Default: ${DEFAULT-VALUE}.")
     String degree;
 
-    @Option(names = "--max-degree", paramLabel = "N", defaultValue = "3",
+    @Option(names = "--max-degree", paramLabel = "N", defaultValue = "" + Calibrator.DEFAULT_MAX_DEGREE,
             description = "Highest degree auto may choose. Default: ${DEFAULT-VALUE}.")
     int maxDegree;
 

@@ -125,7 +125,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @param lamps    species of built-in lamp sets
      * @param lineSets data-set ids or line-list files
      * @return the {@code calibrate} command's defaults: air, every strength, threshold 5, tolerance
-     *         3 pixels, 60 % matched, clipping at 3.5, automatic degree up to 3, no saturation, no prior,
+     *         3 pixels, 60 % matched, clipping at 3.5, automatic degree up to 5, no saturation, no prior,
      *         second-order images considered, no required precision
      */
     public static CalibrationParameters of(List<String> lamps, List<String> lineSets) {

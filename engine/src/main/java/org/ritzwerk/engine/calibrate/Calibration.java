@@ -95,8 +95,10 @@ public final class Calibration {
 
     /**
      * What a user should know beside the figures, one sentence each: a saturation level taken
-     * from the exposure itself ({@link #inferredSaturationLevel}), and each end where the solution
-     * rests on one pairing ({@link #restsOnItsEndLine}). The {@code calibrate} command prints them
+     * from the exposure itself ({@link #inferredSaturationLevel}), residuals with structure the
+     * polynomial does not follow ({@link DispersionSolution#residualsStructured()}: its stated
+     * uncertainties may be too small), and each end where the solution rests on one pairing
+     * ({@link #restsOnItsEndLine}). The {@code calibrate} command prints them
      * as notes; the Spark operation puts them in each row's notes.
      *
      * @return the notes, possibly none
@@ -110,6 +112,9 @@ public final class Calibration {
                     + " it are centred from their wings; a saturation level given overrides it)");
         }
         notes.addAll(leftOut);
+        if (solution.residualsStructured()) {
+            notes.add(structureNote());
+        }
         for (boolean high : new boolean[] {false, true}) {
             if (restsOnItsEndLine(high)) {
                 double check = endConfirmationPixels(high);
@@ -122,6 +127,34 @@ public final class Calibration {
             }
         }
         return notes;
+    }
+
+    /**
+     * The note on residuals with structure ({@link DispersionSolution#residualsStructured()}),
+     * saying what would let the solution follow it.
+     */
+    private String structureNote() {
+        int d = solution.degree();
+        String help;
+        if (settings.degree() > 0) {
+            help = "let the degree be chosen or fix a higher one";
+        } else if (d >= settings.maxDegree() && d < DispersionFit.MAX_DEGREE) {
+            help = "allow a higher degree (the automatic choice may now take at most " + settings.maxDegree() + ")";
+        } else {
+            help = "more lamp lines (a second gas, a longer exposure) would let the automatic choice take a higher"
+                    + " degree";
+        }
+        String evidence = solution.nextDegreeProbability() < DispersionSolution.STRUCTURE_PROBABILITY
+                ? String.format(Locale.ROOT, "a degree-%d polynomial fits the same %d lines better than chance"
+                        + " allows (F-test probability %.2g)", d + 1, solution.usedCount(),
+                        solution.nextDegreeProbability())
+                : String.format(Locale.ROOT, "%d runs of one sign in %d fitted lines (probability %.2g for"
+                        + " independent residuals) with a reduced chi-square of %.3g (probability %.2g)",
+                        solution.residualRuns(), solution.usedCount(), solution.residualRunsProbability(),
+                        solution.reducedChiSquare(), solution.lackOfFitProbability());
+        return String.format(Locale.ROOT, "the residuals show structure along the detector that the degree-%d"
+                + " polynomial does not follow: %s; its stated uncertainties are widened by one factor for the whole"
+                + " range and may be too small between the lines; %s", d, evidence, help);
     }
 
     private double endPixel(boolean high) {

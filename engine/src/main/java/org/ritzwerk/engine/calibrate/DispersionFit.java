@@ -30,6 +30,20 @@ import org.ritzwerk.medium.Medium;
  * n &gt;= k + 2. AICc is preferred to BIC for the small samples of lamp calibrations (tens of
  * lines), where BIC tends to underfit (Burnham and Anderson, sec. 6.4).
  *
+ * <p><b>Degrees above the usual cubic.</b> A degree d above {@value #USUAL_DEGREE} is tried only
+ * when the cubic's pairs scatter more than their stated uncertainties allow (reduced chi-square
+ * above 1, so the Birge factor is taking up a misfit), and may be chosen only when it fits
+ * significantly better than degree d - 1 (the F-test of {@link DispersionSolution#nextDegreeProbability()}
+ * below {@value DispersionSolution#STRUCTURE_PROBABILITY}), still does with the outermost pair at
+ * either end left out, and every degree between was eligible; then AICc chooses among the eligible
+ * degrees. Tried degrees enter the model-selection scale below with their Akaike weights. Free
+ * AICc up to 5 took a quartic or quintic in seeded sweeps of exactly cubic dispersions
+ * (CalibrationSweep, seeds 1 to 400) where blends and foreign lines left structure below the
+ * stated scatter, and bent a quintic to one wrong end pair, 1.5 pixels off at 35 stated
+ * uncertainties (solved 302 instead of 328); with these conditions the sweep's outcome is that of
+ * a cubic limit, while a quartic term of 0.18 nm across 2048 pixels is taken up in most neon
+ * exposures (refdata's QuarticDispersionTest).
+ *
  * <p><b>Clipping.</b> After each fit the normalised residuals z_i = r_i / s_i of the used pairs
  * are divided by sqrt(1 - h_i), h_i = w_i phi_i^T (A^T W A)^-1 phi_i being the pair's leverage
  * (studentized residuals; R. D. Cook and S. Weisberg, Residuals and Influence in Regression,
@@ -194,17 +208,26 @@ public final class DispersionFit {
                 Arrays.fill(criterion, Double.NaN);
                 tried = new Pass[maxDegree + 1];
                 pass = null;
+                boolean eligible = true;
                 for (int d = 1; d <= maxDegree && used >= d + 3; d++) {
+                    if (d > USUAL_DEGREE && !exceedsStatedScatter(tried[USUAL_DEGREE], used, weighted)) {
+                        break;
+                    }
                     Pass candidate = weightedFit(x, pixelSigma, wavelengthNm, wavelengthSigmaNm, use, d, half,
                             weighted);
                     if (candidate == null) {
                         break;
                     }
+                    // Above the usual degree, a degree may be chosen only when it fits significantly
+                    // better than the one below (and that one was eligible); it still enters the
+                    // model-selection scale below with its Akaike weight.
+                    eligible &= d <= USUAL_DEGREE || significantlyBetter(tried[d - 1], candidate, x, pixelSigma,
+                            wavelengthNm, wavelengthSigmaNm, use, used, half, weighted);
                     tried[d] = candidate;
                     int k = d + 1;
                     double chi = Math.max(candidate.solution.chiSquare(), CHI_FLOOR * used);
                     criterion[d] = used * Math.log(chi / used) + 2 * k + 2.0 * k * (k + 1) / (used - k - 1);
-                    if (pass == null || criterion[d] < criterion[pass.degree()]) {
+                    if (eligible && (pass == null || criterion[d] < criterion[pass.degree()])) {
                         pass = candidate;
                     }
                 }
@@ -285,6 +308,12 @@ public final class DispersionFit {
             }
             modelScale = Math.max(1, modelScale) * nextScale;
         }
+        // The next degree's F-test on the same pairs (DispersionSolution.nextDegreeProbability).
+        double nextProbability = Double.NaN;
+        if (next != null && dof - 1 > 0) {
+            double chiNext = Math.max(next.chiSquare, CHI_FLOOR * used);
+            nextProbability = DispersionSolution.fTestProbability((chi - chiNext) / (chiNext / (dof - 1)), dof - 1);
+        }
         double[] residual = new double[n];
         double[] sigma = new double[n];
         boolean[] rejected = new boolean[n];
@@ -295,7 +324,75 @@ public final class DispersionFit {
         }
         return new DispersionSolution(centre, half, a, covariance, scale, modelScale, medium, chi, dof, usedLo,
                 usedHi, pixel.clone(), wavelengthNm.clone(), sigma, residual, rejected, criterion,
-                beyond == null ? null : beyond.coefficients, beyond == null ? null : beyond.scaledCovariance());
+                beyond == null ? null : beyond.coefficients, beyond == null ? null : beyond.scaledCovariance(),
+                nextProbability);
+    }
+
+    /**
+     * Whether a fit of degree d fits the used pairs significantly better than degree d - 1 (the
+     * F-test's probability below {@value DispersionSolution#STRUCTURE_PROBABILITY}), and still does
+     * with the outermost pair at either end left out: a single end pair (a foreign line or a
+     * blend at the edge of the lines) must not carry a higher degree, which would then bend to
+     * it where no other line checks it (a sweep exposure with a wrong last pair 40 pixels beyond
+     * the others was taken by a quintic 1.5 pixels off, at 35 stated uncertainties).
+     */
+    private static boolean significantlyBetter(Pass low, Pass high, double[] x, double[] pixelSigma,
+            double[] wavelengthNm, double[] lineSigma, boolean[] use, int used, double half, boolean weighted) {
+        int d = high.degree();
+        if (low == null || !(DispersionSolution.fTestProbability(fRatio(low, high, used), used - d - 1)
+                < DispersionSolution.STRUCTURE_PROBABILITY)) {
+            return false;
+        }
+        if (used - 1 < d + 3) {
+            return false;
+        }
+        for (boolean top : new boolean[] {false, true}) {
+            int end = -1;
+            for (int i = 0; i < x.length; i++) {
+                if (use[i] && (end < 0 || (top ? x[i] > x[end] : x[i] < x[end]))) {
+                    end = i;
+                }
+            }
+            boolean[] without = use.clone();
+            without[end] = false;
+            Pass lowWithout = weightedFit(x, pixelSigma, wavelengthNm, lineSigma, without, d - 1, half, weighted);
+            Pass highWithout = weightedFit(x, pixelSigma, wavelengthNm, lineSigma, without, d, half, weighted);
+            if (lowWithout == null || highWithout == null) {
+                return false;
+            }
+            double probability = DispersionSolution.fTestProbability(fRatio(lowWithout, highWithout, used - 1),
+                    used - d - 2);
+            if (!(probability < DispersionSolution.STRUCTURE_PROBABILITY)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * Whether a fit's pairs scatter about it more than their stated uncertainties allow (reduced
+     * chi-square above 1, so the Birge factor widens its uncertainty to take up the misfit); always
+     * for an unweighted fit, false for a missing one.
+     */
+    private static boolean exceedsStatedScatter(Pass pass, int used, boolean weighted) {
+        if (pass == null) {
+            return false;
+        }
+        int dof = used - pass.solution.coefficients().length;
+        return !weighted || dof > 0 && pass.solution.chiSquare() / dof > 1;
+    }
+
+    /**
+     * The F ratio of a fit one degree higher against a lower one on the same used pairs,
+     * (chi^2_low - chi^2_high) / (chi^2_high / (used - k_high)) (see
+     * {@link DispersionSolution#nextDegreeProbability()}); 0 when the lower one is missing.
+     */
+    private static double fRatio(Pass low, Pass high, int used) {
+        if (low == null) {
+            return 0;
+        }
+        double chiHigh = Math.max(high.solution.chiSquare(), CHI_FLOOR * used);
+        return (low.solution.chiSquare() - chiHigh) / (chiHigh / (used - high.solution.coefficients().length));
     }
 
     /**
@@ -437,14 +534,15 @@ public final class DispersionFit {
         if (!(s > 0) || Double.isInfinite(s)) {
             return null;
         }
-        return new NextDegree(higher.solution.coefficients(), higher.solution.covariance(), s);
+        return new NextDegree(higher.solution.coefficients(), higher.solution.covariance(), s,
+                higher.solution.chiSquare());
     }
 
     /**
      * A higher degree's coefficients, their unscaled covariance and its scale (see
      * {@link #higherDegree}).
      */
-    private record NextDegree(double[] coefficients, double[][] covariance, double scale) {
+    private record NextDegree(double[] coefficients, double[][] covariance, double scale, double chiSquare) {
 
         double[][] scaledCovariance() {
             double[][] scaled = new double[covariance.length][];

@@ -321,8 +321,9 @@ public final class PeakFinder {
      * @param counts counts per pixel, finite (and not negative unless allowed), at least
      *               {@value #MIN_PIXELS} pixels, not all equal
      * @return the peaks, sorted by centroid
-     * @throws IllegalArgumentException for an empty, short or constant spectrum, naming the first
-     *         NaN, infinite or negative pixel, or when every pixel is saturated
+     * @throws CalibrationException ({@link CalibrationException#UNUSABLE_COUNTS}) for an empty,
+     *         short or constant spectrum, naming the first NaN, infinite or (when not allowed)
+     *         negative pixel, or when every pixel is saturated
      */
     public Peaks find(double[] counts) {
         return find(counts, null);
@@ -335,8 +336,9 @@ public final class PeakFinder {
      * @param sigma  standard uncertainty of each pixel in counts, finite and positive; or null to
      *               model them
      * @return the peaks, sorted by centroid
-     * @throws IllegalArgumentException as for {@link #find(double[])}, for an uncertainty array of
-     *         another length, or naming the first pixel whose uncertainty is not finite and positive
+     * @throws CalibrationException as for {@link #find(double[])}, and naming the first pixel whose
+     *         uncertainty is not finite and positive
+     * @throws IllegalArgumentException for an uncertainty array of another length
      */
     public Peaks find(double[] counts, double[] sigma) {
         int n = counts.length;
