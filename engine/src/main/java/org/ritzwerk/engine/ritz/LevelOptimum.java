@@ -72,7 +72,21 @@ public final class LevelOptimum {
             double referencePerCm, double referenceUncertaintyPerCm, List<Integer> levels, int lines,
             double chiSquare, int degreesOfFreedom) {
 
-        /** Copies the list of levels. */
+        /**
+         * Copies the list of levels.
+         *
+         * @param index                     the system's number
+         * @param reference                 its reference level's label
+         * @param referenceLevel            that level's index
+         * @param standing                  absolute or relative to the reference
+         * @param named                     whether the reference was given
+         * @param referencePerCm            the reference's energy, cm^-1
+         * @param referenceUncertaintyPerCm its standard uncertainty, cm^-1
+         * @param levels                    the indices of its levels
+         * @param lines                     its lines kept in the fit
+         * @param chiSquare                 their weighted sum of squared residuals
+         * @param degreesOfFreedom          those lines minus its free levels
+         */
         public LevelSystem {
             levels = List.copyOf(levels);
         }

@@ -17,6 +17,11 @@ package org.ritzwerk.engine.ritz;
 public record SystemReference(String label, double energyPerCm, double uncertaintyPerCm) {
 
     /**
+     * Validates the components.
+     *
+     * @param label            the level's label
+     * @param energyPerCm      its energy above the ground level, cm^-1; NaN when floating
+     * @param uncertaintyPerCm its standard uncertainty, cm^-1; NaN when floating
      * @throws IllegalArgumentException for a blank label, an energy that is neither NaN nor finite and not
      *                                  negative, an uncertainty that is not finite and not negative for an
      *                                  anchored level, or one given for a floating level
