@@ -105,12 +105,6 @@ final class LevelsCommand implements Callable<Integer> {
                 Table.Column.number("energy_per_cm", "energy cm-1", "%.7f"),
                 Table.Column.number("uncertainty_per_cm", "u cm-1", "%.2g"),
                 Table.Column.text("model", "model")));
-        if (lifetimes) {
-            columns.add(Table.Column.number("lifetime_s", "lifetime s", "%.5e"));
-            if (temperature != null) {
-                columns.add(Table.Column.number("effective_lifetime_s", "at T s", "%.5e"));
-            }
-        }
         if (temperature != null) {
             OptionRules.range("--temperature", temperature, 0, true, Math.nextDown(1e5),
                     "a temperature from 0 (no black-body radiation) to below 1e5 K");
@@ -191,24 +185,49 @@ final class LevelsCommand implements Callable<Integer> {
             query = query.withBlackBodyTemperature(temperature);
         }
         LevelSets.noteLevelsWithoutLines(levelSets.levels(), spec.commandLine().getErr());
+        // alkali lifetimes decided by published dipole elements carry an uncertainty (first p levels, ...)
+        boolean lifetimeSigmas = lifetimes && alkali;
+        if (lifetimes) {
+            columns.add(Table.Column.number("lifetime_s", "lifetime s", "%.5e"));
+            if (lifetimeSigmas) {
+                columns.add(Table.Column.number("uncertainty_lifetime_s", "u lifetime s", "%.2g"));
+            }
+            if (temperature != null) {
+                columns.add(Table.Column.number("effective_lifetime_s", "at T s", "%.5e"));
+            }
+        }
         Table table = new Table(columns, spec.commandLine().getOut(), format);
         Map<Species, List<String>> unsplit = new java.util.LinkedHashMap<>();
         // alkali levels whose energy has no estimated uncertainty (shown '-'), to say so once per species
         java.util.Set<Species> alkaliSpecies = new java.util.HashSet<>();
         atoms.alkalis().forEach(atom -> alkaliSpecies.add(atom.species()));
         Map<Species, List<String>> notEstimated = new java.util.LinkedHashMap<>();
+        Map<Species, Integer> lifetimeNotEstimated = new java.util.LinkedHashMap<>();
         Map<Species, DoubleConsumer> progress = new HashMap<>();
         query.run(sources, (species, fraction) -> progress.computeIfAbsent(species, s -> Progress.on(
                 spec.commandLine().getErr(), "levels: " + s.notation() + (lifetimes ? " lifetimes" : "")))
                 .accept(fraction), part -> {
                     for (int i = 0; i < part.size(); i++) {
-                        Object[] row = {part.species(i).notation(), part.label(i), boxed(part.n(i)), boxed(part.l(i)),
-                            part.twoJ(i).isPresent() ? Notation.half(part.twoJ(i).getAsInt()) : null,
-                            part.twoF(i).isPresent() ? Notation.half(part.twoF(i).getAsInt()) : null,
-                            boxed(part.statisticalWeight(i)), part.energyPerCm(i),
-                            boxed(part.energyUncertaintyPerCm(i)), part.model(i),
-                            boxed(part.lifetimeSeconds(i)), boxed(part.effectiveLifetimeSeconds(i))};
-                        table.add(Arrays.copyOf(row, columns.size()));
+                        List<Object> row = new ArrayList<>(Arrays.asList(part.species(i).notation(), part.label(i),
+                                boxed(part.n(i)), boxed(part.l(i)),
+                                part.twoJ(i).isPresent() ? Notation.half(part.twoJ(i).getAsInt()) : null,
+                                part.twoF(i).isPresent() ? Notation.half(part.twoF(i).getAsInt()) : null,
+                                boxed(part.statisticalWeight(i)), part.energyPerCm(i),
+                                boxed(part.energyUncertaintyPerCm(i)), part.model(i)));
+                        if (lifetimes) {
+                            row.add(boxed(part.lifetimeSeconds(i)));
+                            if (lifetimeSigmas) {
+                                row.add(boxed(part.lifetimeUncertaintySeconds(i)));
+                                if (part.lifetimeSeconds(i).isPresent() && part.lifetimeUncertaintySeconds(i).isEmpty()
+                                        && alkaliSpecies.contains(part.species(i))) {
+                                    lifetimeNotEstimated.merge(part.species(i), 1, Integer::sum);
+                                }
+                            }
+                            if (temperature != null) {
+                                row.add(boxed(part.effectiveLifetimeSeconds(i)));
+                            }
+                        }
+                        table.add(row.toArray());
                         if (part.energyUncertaintyPerCm(i).isEmpty() && alkaliSpecies.contains(part.species(i))) {
                             notEstimated.computeIfAbsent(part.species(i), k -> new ArrayList<>()).add(part.label(i));
                         }
@@ -229,6 +248,10 @@ final class LevelsCommand implements Callable<Integer> {
                 + labels.get(0) + "): no uncertainty is stated for their series' quantum defects or the ionisation"
                 + " limit, or they are core-polarization, hydrogenic or hyperfine F levels; README, Rydberg states of"
                 + " alkali atoms, says which levels have one"));
+        lifetimeNotEstimated.forEach((species, count) -> spec.commandLine().getErr().println("note: "
+                + species.notation() + ": u lifetime s is not estimated ('-', null in JSON) for " + count + " level(s):"
+                + " a lifetime carries one only where published dipole elements decide every decay channel (the first"
+                + " p levels; Cs 5d and 7s), not where the Coulomb approximation computes them"));
         unsplit.forEach((species, labels) -> spec.commandLine().getErr().println("note: " + species.notation()
                 + ": no hyperfine constants for " + labels.size() + " level(s), listed unsplit (F -): "
                 + String.join(", ", labels.subList(0, Math.min(8, labels.size()))) + (labels.size() > 8 ? ", ..." : "")

@@ -217,6 +217,30 @@ class LevelsAndLinesCommandTest {
                 rydberg.err());
     }
 
+    /**
+     * levels --lifetimes states a lifetime's uncertainty where published elements decide it: Rb 5p3/2 26.20(9) ns
+     * (S. Aubin et al., Phys. Rev. A 70, 042504 (2004), the built-in row's source); none for 6s (computed
+     * channels), with a note; one-electron ions keep their columns.
+     */
+    @Test
+    void levelsStateTheLifetimeUncertaintyWherePublishedElementsDecideIt() {
+        CliTest.Run rb = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "6", "--l-max", "1", "--lifetimes",
+                "--format", "json");
+        assertEquals(0, rb.code(), rb.err());
+        java.util.Map<String, JsonNode> rows = new java.util.HashMap<>();
+        for (String line : rb.out().strip().split("\\R")) {
+            JsonNode row = new JsonMapper().readTree(line);
+            rows.put(row.get("label").asString(), row);
+        }
+        assertEquals(0.09e-9, rows.get("5p 2P3/2").get("uncertainty_lifetime_s").asDouble(), 1e-15);
+        assertEquals(0.04e-9, rows.get("5p 2P1/2").get("uncertainty_lifetime_s").asDouble(), 1e-15);
+        assertTrue(rows.get("6s 2S1/2").get("uncertainty_lifetime_s").isNull(), rows.get("6s 2S1/2").toString());
+        assertTrue(rb.err().contains("note: Rb-87 I: u lifetime s is not estimated ('-', null in JSON) for 3 level(s)"),
+                rb.err());
+        CliTest.Run h = CliTest.run("levels", "--species", "H I", "--n-max", "2", "--lifetimes", "--format", "json");
+        assertTrue(!h.out().contains("uncertainty_lifetime_s"), h.out());
+    }
+
     /** levels --help says what --lifetimes gives 2s: its two-photon and M1 decays are included (0.1216 s in H). */
     @Test
     void theLifetimesHelpSaysTwoPhotonDecayOf2sIsIncluded() {

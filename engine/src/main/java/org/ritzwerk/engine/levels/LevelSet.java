@@ -58,6 +58,7 @@ public final class LevelSet {
     private final double[] energySigma;
     private final String[] model;
     private final double[] lifetime;
+    private final double[] lifetimeSigma;
     private final double[] effective;
     private final List<Omission> omissions;
 
@@ -74,6 +75,7 @@ public final class LevelSet {
         energySigma = Arrays.copyOf(b.energySigma, size);
         model = Arrays.copyOf(b.model, size);
         lifetime = Arrays.copyOf(b.lifetime, size);
+        lifetimeSigma = Arrays.copyOf(b.lifetimeSigma, size);
         effective = Arrays.copyOf(b.effective, size);
         omissions = List.copyOf(b.omissions);
     }
@@ -94,7 +96,7 @@ public final class LevelSet {
             for (int i = 0; i < part.size(); i++) {
                 b.add(part.species[i], part.label[i], part.n[i], part.l[i], part.twoJ[i], part.twoF[i],
                         part.weight[i], part.energy[i], part.energySigma[i], part.model[i], part.lifetime[i],
-                        part.effective[i]);
+                        part.lifetimeSigma[i], part.effective[i]);
             }
             part.omissions.forEach(b::omit);
         }
@@ -202,6 +204,16 @@ public final class LevelSet {
 
     /**
      * @param i a level, 0 to size() - 1
+     * @return the standard uncertainty of {@link #lifetimeSeconds} in s, where published dipole elements
+     *         decide every decay channel (alkali atoms: {@code AlkaliAtom.radiativeLifetimeUncertainty});
+     *         empty where it is not estimated
+     */
+    public OptionalDouble lifetimeUncertaintySeconds(int i) {
+        return Double.isFinite(lifetimeSigma[i]) ? OptionalDouble.of(lifetimeSigma[i]) : OptionalDouble.empty();
+    }
+
+    /**
+     * @param i a level, 0 to size() - 1
      * @return the lifetime in s with black-body stimulated decays and excitation added, when asked
      *         for with a temperature (alkali atoms only)
      */
@@ -239,12 +251,14 @@ public final class LevelSet {
         private double[] energySigma = new double[16];
         private String[] model = new String[16];
         private double[] lifetime = new double[16];
+        private double[] lifetimeSigma = new double[16];
         private double[] effective = new double[16];
         private final List<Omission> omissions = new ArrayList<>();
 
         /** Integer columns take {@link #NONE} and doubles NaN where a row has no value. */
         void add(Species s, String text, int nValue, int lValue, int twoJValue, int twoFValue, int g, double perCm,
-                double sigmaPerCm, String modelName, double lifetimeSeconds, double effectiveSeconds) {
+                double sigmaPerCm, String modelName, double lifetimeSeconds, double lifetimeSigmaSeconds,
+                double effectiveSeconds) {
             if (size == label.length) {
                 int grown = size * 2;
                 species = Arrays.copyOf(species, grown);
@@ -258,6 +272,7 @@ public final class LevelSet {
                 energySigma = Arrays.copyOf(energySigma, grown);
                 model = Arrays.copyOf(model, grown);
                 lifetime = Arrays.copyOf(lifetime, grown);
+                lifetimeSigma = Arrays.copyOf(lifetimeSigma, grown);
                 effective = Arrays.copyOf(effective, grown);
             }
             species[size] = s;
@@ -271,6 +286,7 @@ public final class LevelSet {
             energySigma[size] = sigmaPerCm;
             model[size] = modelName;
             lifetime[size] = lifetimeSeconds;
+            lifetimeSigma[size] = lifetimeSigmaSeconds;
             effective[size] = effectiveSeconds;
             size++;
         }
