@@ -28,14 +28,15 @@ import org.ritzwerk.quantity.Unit;
 import tools.jackson.core.JacksonException;
 import tools.jackson.core.JsonParser;
 import tools.jackson.core.JsonToken;
+import tools.jackson.core.ObjectReadContext;
 import tools.jackson.core.StreamReadFeature;
 import tools.jackson.core.TokenStreamLocation;
 import tools.jackson.databind.DeserializationFeature;
 import tools.jackson.databind.JsonNode;
-import tools.jackson.databind.MappingIterator;
 import tools.jackson.databind.json.JsonMapper;
 import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.ObjectNode;
+import tools.jackson.dataformat.csv.CsvFactory;
 import tools.jackson.dataformat.csv.CsvMapper;
 import tools.jackson.dataformat.csv.CsvReadFeature;
 import tools.jackson.dataformat.csv.CsvSchema;
@@ -69,12 +70,27 @@ final class TabularFiles {
     /** What {@link #isDecimal} accepts, as a regular expression (the tests compare the two). */
     static final Pattern DECIMAL = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
     private static final int MAX_TEXT = 500;
-    /** Reads values out of a running parser, so a value is not the end of the input. */
-    private static final JsonMapper JSON = JsonMapper.builder()
-            .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
-            .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).build();
-    private static final CsvMapper CSV = CsvMapper.builder().enable(CsvReadFeature.ALLOW_COMMENTS)
+    /**
+     * Reads CSV rows as a stream of tokens, each row an array of strings: Jackson's streaming layer
+     * alone, without a mapper. Building a {@code CsvMapper} costs about a quarter of a second in a
+     * fresh JVM (260-300 ms against 23 ms for the factory, measured 2026-12-05), which every first
+     * read of a built-in file paid; the rows and their line numbers are those the mapper's
+     * {@code readerFor(String[].class)} gave (compared on every built-in and test CSV file).
+     */
+    private static final CsvFactory CSV_ROWS = CsvFactory.builder().enable(CsvReadFeature.ALLOW_COMMENTS)
             .enable(CsvReadFeature.WRAP_AS_ARRAY).build();
+
+    /** The mappers, made when first needed (JSON files, and writing): see {@link #CSV_ROWS} for their cost. */
+    private static final class Mappers {
+        /** Reads values out of a running parser, so a value is not the end of the input. */
+        static final JsonMapper JSON = JsonMapper.builder()
+                .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+                .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION).build();
+        static final CsvMapper CSV = CsvMapper.builder().build();
+
+        private Mappers() {
+        }
+    }
 
     private TabularFiles() {
     }
@@ -547,8 +563,8 @@ final class TabularFiles {
     static Parsed parseCsv(Spec spec, String text, String source, RowSink sink) {
         Parsed p = new Parsed(spec, source, text, sink);
         int lineNumber = readHeader(p, p::raw, p.lineCount());
-        try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(text)) {
-            readRows(p, iterator, lineNumber);
+        try (JsonParser rows = CSV_ROWS.createParser(ObjectReadContext.empty(), text)) {
+            readRows(p, rows, lineNumber);
         } catch (JacksonException e) {
             csvSyntax(p, e);
         }
@@ -604,8 +620,8 @@ final class TabularFiles {
         int end = endLine <= p.lineCount() ? p.lineStarts[endLine - 1] : text.length();
         String rest = "\n".repeat(markerLine) + (markerLine < p.lineCount() ? text.substring(p.lineStarts[markerLine],
                 Math.max(end, p.lineStarts[markerLine])) : "");
-        try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(rest)) {
-            readRows(p, iterator, markerLine);
+        try (JsonParser rows = CSV_ROWS.createParser(ObjectReadContext.empty(), rest)) {
+            readRows(p, rows, markerLine);
         } catch (JacksonException e) {
             csvSyntax(p, e);
         }
@@ -652,8 +668,8 @@ final class TabularFiles {
             if (in.read() != '\uFEFF') {
                 in.reset();
             }
-            try (MappingIterator<String[]> iterator = CSV.readerFor(String[].class).readValues(in)) {
-                readRows(p, iterator, lineNumber);
+            try (JsonParser rows = CSV_ROWS.createParser(ObjectReadContext.empty(), in)) {
+                readRows(p, rows, lineNumber);
             }
         } catch (JacksonException e) {
             if (e.getCause() instanceof java.nio.charset.CharacterCodingException) {
@@ -827,11 +843,17 @@ final class TabularFiles {
     }
 
     /** The rows after the header: the row of column names, then the data rows to {@link #addRow}. */
-    private static void readRows(Parsed p, MappingIterator<String[]> iterator, int lineNumber) {
+    private static void readRows(Parsed p, JsonParser rows, int lineNumber) {
         String[] columns = null;
-        while (iterator.hasNextValue()) {
-            int line = iterator.currentLocation().getLineNr();
-            String[] fields = iterator.nextValue();
+        boolean open = rows.nextToken() == JsonToken.START_ARRAY; // the rows wrapped as one array
+        List<String> row = new ArrayList<>();
+        while (open && rows.nextToken() == JsonToken.START_ARRAY) {
+            int line = rows.currentLocation().getLineNr();
+            row.clear();
+            for (JsonToken t = rows.nextToken(); t != JsonToken.END_ARRAY; t = rows.nextToken()) {
+                row.add(t == JsonToken.VALUE_NULL ? "" : rows.getString());
+            }
+            String[] fields = row.toArray(new String[0]);
             if (fields.length == 1 && fields[0].isBlank()) {
                 continue;
             }
@@ -929,7 +951,7 @@ final class TabularFiles {
         Object format = null;
         Object version = null;
         int formatLine = 1;
-        try (JsonParser parser = JSON.createParser(text)) {
+        try (JsonParser parser = Mappers.JSON.createParser(text)) {
             if (parser.nextToken() != JsonToken.START_OBJECT) {
                 p.problem(1, 1, "data.json-shape", "the file must be one JSON object", "");
                 return p;
@@ -947,7 +969,7 @@ final class TabularFiles {
                     }
                     continue;
                 }
-                JsonNode value = JSON.readTree(parser);
+                JsonNode value = Mappers.JSON.readTree(parser);
                 if (name.equals("format")) {
                     format = value.isString() ? value.asString() : value.toString();
                     formatLine = line;
@@ -1019,7 +1041,7 @@ final class TabularFiles {
         }
         while (parser.nextToken() != JsonToken.END_ARRAY) {
             TokenStreamLocation at = parser.currentTokenLocation();
-            JsonNode node = JSON.readTree(parser);
+            JsonNode node = Mappers.JSON.readTree(parser);
             if (!jsonRow(rowsInto, node, at.getLineNr(), at.getColumnNr())) {
                 return false;
             }
@@ -1077,7 +1099,7 @@ final class TabularFiles {
         all.add(spec.columns().toArray(new String[0]));
         all.addAll(rows);
         StringWriter out = new StringWriter();
-        CSV.writer(CsvSchema.emptySchema().withLineSeparator("\n")).writeValues(out).writeAll(all).close();
+        Mappers.CSV.writer(CsvSchema.emptySchema().withLineSeparator("\n")).writeValues(out).writeAll(all).close();
         return text.append(out).toString();
     }
 
@@ -1091,7 +1113,7 @@ final class TabularFiles {
      */
     static String writeJson(Spec spec, Map<String, String> header, List<ObjectNode> rows,
             Map<Spec, List<ObjectNode>> sections) {
-        ObjectNode root = JSON.createObjectNode();
+        ObjectNode root = Mappers.JSON.createObjectNode();
         root.put("format", spec.format());
         root.put("formatVersion", spec.version());
         header.forEach((key, value) -> root.put(spec.jsonKey(key), value));
@@ -1103,7 +1125,7 @@ final class TabularFiles {
                 sectionRows.forEach(more::add);
             }
         });
-        return JSON.writerWithDefaultPrettyPrinter().writeValueAsString(root) + "\n";
+        return Mappers.JSON.writerWithDefaultPrettyPrinter().writeValueAsString(root) + "\n";
     }
 
     /**
@@ -1117,12 +1139,12 @@ final class TabularFiles {
         all.add(spec.columns().toArray(new String[0]));
         all.addAll(rows);
         StringWriter out = new StringWriter();
-        CSV.writer(CsvSchema.emptySchema().withLineSeparator("\n")).writeValues(out).writeAll(all).close();
+        Mappers.CSV.writer(CsvSchema.emptySchema().withLineSeparator("\n")).writeValues(out).writeAll(all).close();
         return "# " + marker + "\n" + out;
     }
 
     static ObjectNode newRow() {
-        return JSON.createObjectNode();
+        return Mappers.JSON.createObjectNode();
     }
 
     static void put(ObjectNode row, String key, String value) {
