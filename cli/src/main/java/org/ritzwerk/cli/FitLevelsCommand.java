@@ -81,7 +81,8 @@ final class FitLevelsCommand implements Callable<Integer> {
             description = "The level held in its system (one per system no line joins to --reference; repeatable; "
                     + "implies --separate-systems): LABEL alone floats the system on that level; LABEL@ENERGY gives "
                     + "its energy above the ground level with its standard uncertainty (\"159855.9743(5) cm-1\", "
-                    + "\"19.82 +- 0.001 eV\"; +- 0 for an exact value), making the system's energies absolute.")
+                    + "\"19.82 +- 0.001 eV\"; +- 0 for an exact value), making the system's energies absolute. A value "
+                    + "that is a level's label whole is that label, even with an '@' in it.")
     List<String> systemReferences;
 
     @Option(names = "--threshold", paramLabel = "N", defaultValue = "3",
@@ -122,7 +123,6 @@ final class FitLevelsCommand implements Callable<Integer> {
         }
         Medium shown = AxisMedium.of(medium);
         double referencePerCm = referencePerCm();
-        List<SystemReference> anchors = systemReferences();
         Species levelSpecies = levelSpecies();
         if (out != null || levelsOut != null) {
             OutputFiles.check(List.of(new OutputFiles.Named("--out", out),
@@ -130,6 +130,7 @@ final class FitLevelsCommand implements Callable<Integer> {
         }
         MeasuredLineFiles.Contents contents = MeasuredLineFiles.read(file);
         MeasuredLines problem = contents.problem(reference, referencePerCm);
+        List<SystemReference> anchors = systemReferences(problem.levels());
         boolean touched = false;
         for (int k = 0; k < problem.size(); k++) {
             touched |= problem.upper(k) == 0 || problem.lower(k) == 0;
@@ -240,16 +241,17 @@ final class FitLevelsCommand implements Callable<Integer> {
     }
 
     /**
+     * @param labels the problem's level labels: a value that is one of them whole is a label, even with an '@'
      * @return the --system-reference values as references (LABEL, or LABEL@ENERGY split at the last '@'),
      *         an empty list for --separate-systems alone, null for neither
      */
-    private List<SystemReference> systemReferences() {
+    private List<SystemReference> systemReferences(List<String> labels) {
         if (systemReferences == null || systemReferences.isEmpty()) {
             return separateSystems ? List.of() : null;
         }
         List<SystemReference> out = new ArrayList<>();
         for (String value : systemReferences) {
-            int at = value.lastIndexOf('@');
+            int at = labels.contains(value.strip().replaceAll("\\s+", " ")) ? -1 : value.lastIndexOf('@');
             String label = (at < 0 ? value : value.substring(0, at)).strip();
             if (label.isEmpty()) {
                 throw new OptionException("--system-reference '" + value + "': needs a level label (LABEL or "

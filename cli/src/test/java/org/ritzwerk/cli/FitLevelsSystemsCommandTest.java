@@ -173,4 +173,20 @@ class FitLevelsSystemsCommandTest {
         assertTrue(two.err().contains("--system-reference: system references '1s2s 3S1' and '1s3p 3P1' are in one "
                 + "system (joined by lines); give one reference per system (lines of " + file + ")"), two.err());
     }
+
+    /** A label with an '@' in it is named whole, alone or with an energy after a further '@'. */
+    @Test
+    void aLabelWithAnAtSignIsNamedWhole(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("at-lines.csv");
+        Files.writeString(file, Files.readString(lines(dir)).replace(TRIPLET, "1s2s@3S1"));
+        CliTest.Run floating = CliTest.run("fit-levels", file.toString(), "--reference", SINGLET,
+                "--system-reference", "1s2s@3S1", "--format", "json");
+        assertEquals(0, floating.code(), floating.err());
+        assertTrue(floating.err().contains("1s2s@3S1"), floating.err());
+        CliTest.Run anchored = CliTest.run("fit-levels", file.toString(), "--reference", SINGLET,
+                "--system-reference", "1s2s@3S1@" + ANCHOR + "(5) cm-1", "--format", "json");
+        assertEquals(0, anchored.code(), anchored.err());
+        JsonNode system = FitLevelsCommandTest.rows(anchored.out(), "system").get(1);
+        assertEquals("1s2s@3S1", system.get("reference").asString(), system.toString());
+    }
 }

@@ -198,6 +198,8 @@ public final class LevelOptimizer {
      *                       ({@link RitzException#BAD_ASSIGNMENT}) for separate systems when the reference
      *                       level is in no line;
      *                       ({@link RitzException#TOO_FEW}) for a problem without lines;
+     *                       ({@link RitzException#SINGULAR}) for a connected system whose least-squares
+     *                       problem is numerically singular (uncertainties many orders of magnitude apart);
      *                       ({@link RitzException#BAD_ASSIGNMENT}) naming a line whose fitted upper level is not
      *                       above its lower level, or a level fitted below the ground level with its lines;
      *                       ({@link RitzException#BAD_VALUE}) naming a line whose uncertainty double precision
@@ -683,7 +685,7 @@ public final class LevelOptimizer {
             inverse = new CholeskyDecomposition(normal, 1e-12, 1e-14).getSolver().getInverse().getData();
         } catch (SingularMatrixException | NonPositiveDefiniteMatrixException e) {
             // connectivity was checked, so this is a numerically degenerate system (uncertainties far apart)
-            throw new RitzException(RitzException.UNCONNECTED, "the level system is numerically singular: "
+            throw new RitzException(RitzException.SINGULAR, "the level system is numerically singular: "
                     + "uncertainties span too many orders of magnitude for the lines given");
         }
         for (int i = 0; i < levels; i++) {

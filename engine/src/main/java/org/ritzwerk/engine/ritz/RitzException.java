@@ -16,6 +16,11 @@ public final class RitzException extends RitzwerkException {
     /** Code: levels that no chain of lines connects to the fixed reference level. */
     public static final String UNCONNECTED = "ritz.unconnected";
     /**
+     * Code: a connected level system whose least-squares problem is numerically singular (the lines'
+     * uncertainties span too many orders of magnitude).
+     */
+    public static final String SINGULAR = "ritz.singular";
+    /**
      * Code: a system reference ({@link LevelOptimizer#withSeparateSystems}) that is not a level of any line,
      * lies in the system of the problem's reference, or shares its system with another.
      */
