@@ -6,6 +6,7 @@ import java.io.InputStream;
 import java.io.InputStreamReader;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
+import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -178,6 +179,83 @@ public final class BuiltInFiles {
                     + " does not read (a packaging error): " + e.getMessage());
         } catch (IOException e) {
             throw new UncheckedIOException(resource + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** Reads a built-in set from its file's bytes. */
+    @FunctionalInterface
+    public interface SetReader {
+        /**
+         * @param in       the file's bytes
+         * @param resource the file, for messages
+         * @param kind     the set's kind
+         * @return the set
+         */
+        DataSet read(InputStream in, String resource, DataKind kind);
+    }
+
+    /**
+     * A provider's built-in sets, one file per set in one folder ({@code <folder><id>.csv}): listed
+     * from the files' headers and each loaded when first asked for, both once per JVM.
+     *
+     * @param folder  the folder below {@link BuiltInCsv#RESOURCES}, ending in '/', e.g. {@code lamps/}
+     * @param noun    what a set is called in messages, e.g. {@code lamp set}
+     * @param species each set's id and the species notation its rows cover, in listing order
+     * @param kind    each set's kind, from its id
+     * @param reader  reads a set
+     */
+    public record Folder(String folder, String noun, Map<String, String> species, Function<String, DataKind> kind,
+            SetReader reader) {
+
+        /**
+         * @param folder  the folder, ending in '/'
+         * @param noun    what a set is called in messages
+         * @param species ids and species notations, alternating, in listing order
+         * @param kind    each set's kind, from its id
+         * @param reader  reads a set
+         * @return the folder's sets
+         */
+        public static Folder of(String folder, String noun, Function<String, DataKind> kind, SetReader reader,
+                String... species) {
+            Map<String, String> map = new LinkedHashMap<>();
+            for (int k = 0; k < species.length; k += 2) {
+                map.put(species[k], species[k + 1]);
+            }
+            return new Folder(folder, noun, Collections.unmodifiableMap(map), kind, reader);
+        }
+
+        /** @return every set's info, from the files' headers (no row is read), once per JVM */
+        public List<DataSetInfo> infos() {
+            return List.copyOf(listed().values());
+        }
+
+        private Map<String, DataSetInfo> listed() {
+            return shared(folder, () -> {
+                Map<String, DataSetInfo> infos = new LinkedHashMap<>();
+                species.forEach((id, notation) -> infos.put(id, BuiltInFiles.listed(resource(id), kind.apply(id),
+                        List.of(Species.parse(notation)))));
+                return Collections.unmodifiableMap(infos);
+            });
+        }
+
+        /**
+         * @param id a set's id
+         * @return the set, read from the jar when first loaded in this JVM and shared from then on
+         * @throws ReferenceDataException ({@link ReferenceDataException#UNKNOWN_DATA_SET}) naming the
+         *                                known ids
+         */
+        public DataSet load(String id) {
+            if (!species.containsKey(id)) {
+                throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
+                        "no " + noun + " '" + id + "'; known: " + String.join(", ", species.keySet()));
+            }
+            String resource = resource(id);
+            return shared(resource, () -> checked(resource, listed().get(id),
+                    read(resource, in -> reader.read(in, resource, kind.apply(id)))));
+        }
+
+        private String resource(String id) {
+            return folder + id + ".csv";
         }
     }
 

@@ -1,10 +1,6 @@
 package org.ritzwerk.refdata.internal;
 
-import java.util.Collections;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
-import org.ritzwerk.atom.Species;
 import org.ritzwerk.data.DataKind;
 import org.ritzwerk.data.DataSet;
 import org.ritzwerk.data.DataSetInfo;
@@ -12,7 +8,6 @@ import org.ritzwerk.data.Origin;
 import org.ritzwerk.data.ReferenceDataProvider;
 import org.ritzwerk.refdata.LevelListFiles;
 import org.ritzwerk.refdata.LineListFiles;
-import org.ritzwerk.refdata.ReferenceDataException;
 
 /**
  * Built-in level lists of species beyond one-electron ions and alkali atoms, whose lines come by
@@ -34,8 +29,11 @@ import org.ritzwerk.refdata.ReferenceDataException;
 public final class LevelProvider implements ReferenceDataProvider {
 
     /** Each set's id and the species its rows cover. */
-    private static final Map<String, String> FILES = LampProvider.orderedMap("levels-he-i", "He I", "lines-he-i",
-            "He I", "levels-sr-i", "Sr-88 I");
+    private static final BuiltInFiles.Folder SETS = BuiltInFiles.Folder.of("levels/", "level set",
+            id -> id.startsWith("lines-") ? DataKind.LINES : DataKind.LEVELS,
+            (in, resource, kind) -> kind == DataKind.LINES ? LineListFiles.read(in, resource, kind)
+                    : LevelListFiles.read(in, resource),
+            "levels-he-i", "He I", "lines-he-i", "He I", "levels-sr-i", "Sr-88 I");
 
     @Override
     public String id() {
@@ -50,40 +48,12 @@ public final class LevelProvider implements ReferenceDataProvider {
     /** @return every set's info, from the files' headers (no row is read), once per JVM */
     @Override
     public List<DataSetInfo> dataSets() {
-        return List.copyOf(infos().values());
-    }
-
-    private static Map<String, DataSetInfo> infos() {
-        return BuiltInFiles.shared("levels/", () -> {
-            Map<String, DataSetInfo> infos = new LinkedHashMap<>();
-            FILES.forEach((id, species) -> infos.put(id, BuiltInFiles.listed(resource(id), kind(id),
-                    List.of(Species.parse(species)))));
-            return Collections.unmodifiableMap(infos);
-        });
+        return SETS.infos();
     }
 
     /** @return the set, read from the jar when first loaded in this JVM and shared from then on */
     @Override
     public DataSet load(String dataSetId) {
-        if (!FILES.containsKey(dataSetId)) {
-            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET,
-                    "no level set '" + dataSetId + "'; known: " + String.join(", ", FILES.keySet()));
-        }
-        String resource = resource(dataSetId);
-        return BuiltInFiles.shared(resource, () -> BuiltInFiles.checked(resource, infos().get(dataSetId),
-                read(dataSetId, resource)));
-    }
-
-    private static String resource(String id) {
-        return "levels/" + id + ".csv";
-    }
-
-    private static DataKind kind(String id) {
-        return id.startsWith("lines-") ? DataKind.LINES : DataKind.LEVELS;
-    }
-
-    private static DataSet read(String id, String resource) {
-        return BuiltInFiles.read(resource, in -> kind(id) == DataKind.LINES
-                ? LineListFiles.read(in, resource, DataKind.LINES) : LevelListFiles.read(in, resource));
+        return SETS.load(dataSetId);
     }
 }

@@ -114,9 +114,7 @@ public final class RydbergData {
         String qd = listed.defectsFile();
         QuantumDefectFiles.Content content = BuiltInFiles.read(qd, in -> QuantumDefectFiles.read(in, qd));
         BuiltInFiles.checked(qd, listed.defects(), content.defects());
-        String levelsId = content.defects().levelsId().orElseThrow(() -> new ReferenceDataException(
-                ReferenceDataException.BAD_BUILT_IN, qd + ": names no levels set"));
-        String lv = "rydberg/" + levelsId + ".csv";
+        String lv = listed.levelsFile(); // named by the same header's 'levels' key, checked when listed
         LevelList levels = BuiltInFiles.read(lv, in -> LevelListFiles.read(in, lv));
         if (levels.unit() != Unit.PER_CENTIMETRE) {
             throw new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, lv + ": energies must be in cm-1");
@@ -127,7 +125,7 @@ public final class RydbergData {
     }
 
     /** What one isotope's two files are, from their headers. */
-    private record Listed(String defectsFile, DataSetInfo defects, DataSetInfo levels) {
+    private record Listed(String defectsFile, DataSetInfo defects, String levelsFile, DataSetInfo levels) {
     }
 
     /** @return each isotope's two sets as listed, by file stem, from the files' headers only; once per JVM */
@@ -150,7 +148,7 @@ public final class RydbergData {
                 }
                 String lv = "rydberg/" + levelsId + ".csv";
                 listed.put(stem, new Listed(qd, BuiltInFiles.listed(qd, header, DataKind.QUANTUM_DEFECTS,
-                        List.of(species)), BuiltInFiles.listed(lv, DataKind.LEVELS, List.of(species))));
+                        List.of(species)), lv, BuiltInFiles.listed(lv, DataKind.LEVELS, List.of(species))));
             }
             return Collections.unmodifiableMap(listed);
         });
