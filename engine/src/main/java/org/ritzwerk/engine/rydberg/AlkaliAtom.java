@@ -1078,7 +1078,11 @@ public final class AlkaliAtom {
      * @return the radiative lifetime at 0 K, {@code 1 / sum A}, seconds
      */
     public double radiativeLifetime(State state) {
-        double rate = spontaneousRate(state);
+        return lifetime(state, spontaneousRate(state));
+    }
+
+    /** @return {@code 1 / rate}, refused for a state whose decay rate is not positive */
+    private static double lifetime(State state, double rate) {
         if (!(rate > 0)) {
             throw new IllegalArgumentException(state + " has no dipole decay channel (is it the ground state?)");
         }
@@ -1127,15 +1131,20 @@ public final class AlkaliAtom {
      * ({@link #einsteinAUncertainty}), the channels taken as fully correlated: the elements of one
      * multiplet often share their source (the built-in Cs 5d3/2 pair is one element scaled by LS line
      * strengths), and the linear sum bounds any correlation from above. A single channel taken from a
-     * measured lifetime gives that measurement's uncertainty back.
+     * measured lifetime gives that measurement's uncertainty back. A state no published element
+     * involves (every Rydberg state) is answered without computing its channels.
      *
      * @param state a state above the ground level
      * @return u(tau) in seconds, or empty when any channel's element is computed (not estimated)
-     * @throws IllegalArgumentException for a state without a decay channel
+     * @throws IllegalArgumentException for a state without a decay channel that a published element involves
      * @throws RydbergException         when a level on the way is refused
      */
     public OptionalDouble radiativeLifetimeUncertainty(State state) {
-        double tau = radiativeLifetime(state);
+        Objects.requireNonNull(state, "state");
+        if (published.keySet().stream().noneMatch(pair -> pair.contains(state))) {
+            return OptionalDouble.empty();
+        }
+        double rate = 0;
         double rateUncertainty = 0;
         for (DecayChannel c : spontaneousChannels(state)) {
             if (c.ratePerSecond() == 0) {
@@ -1145,8 +1154,10 @@ public final class AlkaliAtom {
             if (given == null) {
                 return OptionalDouble.empty();
             }
+            rate += c.ratePerSecond();
             rateUncertainty += 2 * c.ratePerSecond() * given.uncertaintyBohr() / given.reducedBohr();
         }
+        double tau = lifetime(state, rate);
         return OptionalDouble.of(tau * tau * rateUncertainty);
     }
 
