@@ -303,7 +303,12 @@ final class FitLevelsCommand implements Callable<Integer> {
 
     /** @return the '+xN' offset of a level of a floating system, null for an absolute one */
     private static String offset(LevelOptimum fit, int level) {
-        return fit.isAbsolute(level) ? null : "+x" + (fit.systemOf(level) + 1);
+        return fit.isAbsolute(level) ? null : offset(fit.systemOf(level));
+    }
+
+    /** @return the '+xN' offset of the energies of floating system {@code index} (N = index + 1) */
+    private static String offset(int index) {
+        return "+x" + (index + 1);
     }
 
     /** @return --reference-energy in cm^-1, refusing wavelengths and values below 0 */
@@ -352,7 +357,7 @@ final class FitLevelsCommand implements Callable<Integer> {
             for (LevelOptimum.LevelSystem s : fit.systems()) {
                 systems.add("system", s.index() + 1, s.reference(), s.standing().name().toLowerCase(Locale.ROOT),
                         s.isAbsolute() ? s.referencePerCm() : null, s.referenceUncertaintyPerCm(),
-                        s.isAbsolute() ? null : "+x" + (s.index() + 1), s.levels().size(), s.lines(), s.chiSquare(),
+                        s.isAbsolute() ? null : offset(s.index()), s.levels().size(), s.lines(), s.chiSquare(),
                         s.degreesOfFreedom());
             }
             systems.finish();
