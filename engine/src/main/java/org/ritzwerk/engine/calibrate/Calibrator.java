@@ -5,7 +5,6 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
-import org.apache.commons.numbers.gamma.RegularizedGamma;
 import org.ritzwerk.data.CalibrationRecord;
 
 /**
@@ -636,8 +635,8 @@ public final class Calibrator {
         if (dof <= 0 || !(capped || dof <= FEW_DEGREES_OF_FREEDOM) || !Double.isFinite(solution.chiSquare())) {
             return;
         }
-        double probability = RegularizedGamma.Q.value(dof / 2.0, solution.chiSquare() / 2);
-        if (probability >= LACK_OF_FIT_PROBABILITY) {
+        double probability = solution.lackOfFitProbability();
+        if (!(probability < LACK_OF_FIT_PROBABILITY)) {
             return;
         }
         String why = degree > 0
