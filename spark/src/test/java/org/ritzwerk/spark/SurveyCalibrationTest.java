@@ -237,6 +237,18 @@ class SurveyCalibrationTest {
         }
     }
 
+    /** One seeded neon exposure (id lamp-1) as counts, as a one-row exposures table, and its lamp. */
+    private record NeonExposure(double[] counts, Dataset<Row> table, LampSet lamp) {
+        static NeonExposure make() {
+            DataContext data = DataContext.builtIn();
+            double[] counts = Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.0, 9L);
+            Dataset<Row> table = LocalSpark.session().createDataFrame(List.of(RowFactory.create("lamp-1", counts,
+                    null)), Schemas.EXPOSURES);
+            return new NeonExposure(counts, table, LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))),
+                    Medium.air()));
+        }
+    }
+
     /**
      * The command's --gain and --read-noise reach the operation (CalibrationParameters.withDetector):
      * a row calibrated with a stated detector is the library's with the same settings, bit for bit,
@@ -244,12 +256,10 @@ class SurveyCalibrationTest {
      */
     @Test
     void aStatedDetectorGainReachesTheOperation() {
-        SparkSession spark = LocalSpark.session();
-        DataContext data = DataContext.builtIn();
-        double[] counts = Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.0, 9L);
-        Dataset<Row> table = spark.createDataFrame(List.of(RowFactory.create("lamp-1", counts, null)),
-                Schemas.EXPOSURES);
-        LampSet neon = LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
+        NeonExposure exposure = NeonExposure.make();
+        double[] counts = exposure.counts();
+        Dataset<Row> table = exposure.table();
+        LampSet neon = exposure.lamp();
         Calibration c = Calibrator.defaults().withGain(3.7).withReadNoise(2).calibrate(CalibrationProblem
                 .builder(counts).lamp(neon).source("lamp-1").build());
         Row row = SurveyCalibration.of(CalibrationParameters.of(List.of("Ne I"), List.of()).withDetector(3.7, 2))
@@ -271,12 +281,10 @@ class SurveyCalibrationTest {
      */
     @Test
     void aRequiredPrecisionRefusesInTheRowAsTheLibraryDoes() {
-        SparkSession spark = LocalSpark.session();
-        DataContext data = DataContext.builtIn();
-        double[] counts = Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.0, 9L);
-        Dataset<Row> table = spark.createDataFrame(List.of(RowFactory.create("lamp-1", counts, null)),
-                Schemas.EXPOSURES);
-        LampSet neon = LampSet.of(List.of(data.lampLines(Species.parse("Ne I"))), Medium.air());
+        NeonExposure exposure = NeonExposure.make();
+        double[] counts = exposure.counts();
+        Dataset<Row> table = exposure.table();
+        LampSet neon = exposure.lamp();
         CalibrationProblem problem = CalibrationProblem.builder(counts).lamp(neon).source("lamp-1").build();
         double stated = Calibrator.defaults().withSecondOrder(false).calibrate(problem).largestSigmaPixels();
 
