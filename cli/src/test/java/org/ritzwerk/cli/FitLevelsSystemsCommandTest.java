@@ -54,6 +54,24 @@ class FitLevelsSystemsCommandTest {
                 && run.err().contains("'1s2s 3S1'") && run.err().contains("--separate-systems"), run.err());
     }
 
+    /**
+     * A connected system that double precision cannot solve (a loop of lines 1e7 times more precise than the
+     * one line joining it to the reference: the library's LevelOptimizerTest) is refused with its own message
+     * and file name, and without the hint for unconnected levels, which would not help.
+     */
+    @Test
+    void aNumericallySingularSystemIsRefusedWithoutTheHintForUnconnectedLevels(@TempDir Path dir)
+            throws IOException {
+        Path file = dir.resolve("loop.csv");
+        Files.writeString(file, "# ritzwerk-measured-lines 1\n# position-unit: cm-1\nposition,uncertainty,upper,lower\n"
+                + "100,0.1,B,A\n50,1e-8,C,B\n25,1e-8,D,C\n75.000000003,1e-8,D,B\n");
+        CliTest.Run run = CliTest.run("fit-levels", file.toString(), "--reference", "A");
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().contains(file + ": line 2 (" + file + ":5): double precision cannot give its Ritz "
+                + "uncertainty"), run.err());
+        assertFalse(run.err().contains("--separate-systems") || run.err().contains("Exception"), run.err());
+    }
+
     @Test
     void aFloatingSystemIsMarkedRelativeToItsLowestLevelAndAnAnchorMakesItAbsolute(@TempDir Path dir)
             throws IOException {

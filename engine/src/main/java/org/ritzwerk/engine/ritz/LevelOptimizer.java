@@ -63,12 +63,24 @@ import org.apache.commons.math4.legacy.linear.SingularMatrixException;
  * unless {@link #withSeparateSystems} allows them; then each such system is fitted on its own, its
  * energies relative to one of its levels or, where that level's energy is given, absolute (see there).
  *
+ * <p><b>Precision of small Ritz uncertainties.</b> The covariance is of the energies above the reference,
+ * so the Ritz uncertainty of a line far more precise than the levels it joins (a precise group of levels
+ * hung on the reference by a loose line) is the root of a difference of variances (u_level / u_Ritz)^2
+ * times larger, and loses about that many parts in 1e16: measured on such a loop (three lines of one
+ * uncertainty on a line 1e4, 1e5 and 1e6 times looser) the Ritz uncertainty is off by 1e-8, 2e-6 and 4e-4
+ * of itself; from 1e7 it came out 1 to 30 per cent off, or 0. So a fit in which some line's Ritz variance is
+ * more than {@value #CANCELLATION_LIMIT} times below its levels' variances is refused as {@link
+ * RitzException#SINGULAR}, naming the line (as is a normal matrix that is singular in double precision).
+ * Give such a group a reference of its own ({@link #withSeparateSystems}, leaving out the loose line) to
+ * keep all its digits.
+ *
  * <p>Refused with a {@link RitzException}: levels that no chain of lines connects to the
  * reference, unless allowed ({@link RitzException#UNCONNECTED}, naming them and the option); an
  * uncertainty below 1e-12 of the energy scale (the largest energy held, the reference's or an anchor's,
  * plus the largest wavenumber) or more than 1e10 times smaller than the largest ({@link
  * RitzException#BAD_VALUE}, naming the line: double precision does not carry such weights through the
- * fit); a line whose fitted upper level does not lie above its lower level
+ * fit); a system that is numerically singular though connected ({@link RitzException#SINGULAR}, above); a
+ * line whose fitted upper level does not lie above its lower level
  * ({@link RitzException#BAD_ASSIGNMENT}, naming the line, both labels and energies: its assignment is
  * reversed or wrong); a level fitted more than 3 of its standard uncertainties below 0, the ground
  * level, since the reference energy is an energy above the ground level unless {@link
@@ -83,6 +95,8 @@ public final class LevelOptimizer {
     static final double RELATIVE_FLOOR = 1e-12;
     /** Uncertainties more than this factor apart are refused (see the class comment). */
     static final double SPREAD_LIMIT = 1e10;
+    /** A Ritz variance this many times below its levels' variances is refused (see checkedRitzVariance). */
+    static final double CANCELLATION_LIMIT = 1e13;
 
     private final double threshold;
     private final boolean relative;
@@ -286,7 +300,7 @@ public final class LevelOptimizer {
                         k + 1, problem.name(k), problem.levels().get(u), fit.energy[u], problem.levels().get(l),
                         fit.energy[l], ritz[k]));
             }
-            ritzSigma[k] = Math.sqrt(fit.variance(u, l));
+            ritzSigma[k] = Math.sqrt(checkedRitzVariance(problem, fit, k));
             double s = problem.uncertaintyPerCm(k);
             standardised[k] = fit.normalised(problem, k, kept[k]);
             if (!kept[k]) {
@@ -745,6 +759,31 @@ public final class LevelOptimizer {
                         problem.name(loosest), largestU, SPREAD_LIMIT));
             }
         }
+    }
+
+    /**
+     * The Ritz variance of line k, refused where double precision cannot give it: it is the difference
+     * var(u) + var(l) - 2 cov(u, l) of the levels' covariance, which loses about (var(u) + var(l)) / var parts
+     * in 1e16. Beyond {@value #CANCELLATION_LIMIT} the result is off by a part in 1e3 or more (measured: a
+     * loop of lines 1e7 to 1e9 times more precise than the one line joining it to the reference came out
+     * 1 to 30 per cent off, or at 0), so the fit is refused ({@link RitzException#SINGULAR}), naming the line
+     * and the remedy. A garbled difference is of the size of 1e-16 (var(u) + var(l)), so it fails the test too.
+     */
+    private static double checkedRitzVariance(MeasuredLines problem, Fit fit, int k) {
+        int u = problem.upper(k);
+        int l = problem.lower(k);
+        double variance = fit.variance(u, l);
+        double levels = fit.covariance[u][u] + fit.covariance[l][l];
+        if (levels > CANCELLATION_LIMIT * variance) {
+            throw new RitzException(RitzException.SINGULAR, String.format(Locale.ROOT, "line %d (%s): double "
+                    + "precision cannot give its Ritz uncertainty (%.3g cm-1 or less): the levels it joins, '%s' "
+                    + "and '%s', are known more than %.1e times less precisely (a precise group of levels joined "
+                    + "to the reference only by much looser lines); fit that group as a system of its own (leave "
+                    + "out the loose lines joining it and fit separate systems)", k + 1, problem.name(k),
+                    Math.max(problem.uncertaintyPerCm(k), Math.sqrt(Math.max(0, variance))),
+                    problem.levels().get(u), problem.levels().get(l), Math.sqrt(CANCELLATION_LIMIT)));
+        }
+        return variance;
     }
 
     /**
