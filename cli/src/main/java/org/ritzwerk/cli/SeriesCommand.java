@@ -271,7 +271,7 @@ final class SeriesCommand implements Callable<Integer> {
             int members = fit.series().stream().mapToInt(RydbergSeries::size).sum();
             out.printf(java.util.Locale.ROOT, "%s: %d series, %d members%s, R_M = %.6f cm-1; chi2 = %.4g for %d "
                     + "degrees of freedom%s%s%n%n", contents.species().notation(), fit.series().size(), members,
-                    levels(fit) == members ? "" : " (measurements of " + levels(fit) + " levels)", fit.rydbergPerCm(),
+                    fit.levelsMeasured() == members ? "" : " (measurements of " + fit.levelsMeasured() + " levels)", fit.rydbergPerCm(),
                     fit.chiSquare(),
                     fit.degreesOfFreedom(), quality(fit), fit.unsettledTerms().isPresent()
                             ? "; the choice of terms is UNSETTLED: see the notes for what to quote" : "");
@@ -299,7 +299,7 @@ final class SeriesCommand implements Callable<Integer> {
                     fit.chiSquareProbability().isEmpty() ? "no degrees of freedom"
                             : fit.isImprobable() ? "improbable" : fit.isTooGood() ? "too-good" : "consistent",
                     fit.uncertaintyScale(), fit.candidates().size() == 1 ? "one-model"
-                            : fit.unsettledTerms().isPresent() ? "unsettled" : "settled", levels(fit));
+                            : fit.unsettledTerms().isPresent() ? "unsettled" : "settled", fit.levelsMeasured());
             summary.finish();
         }
         Table parameters = new Table(List.of(Table.Column.text("kind", "kind"), Table.Column.text("parameter", "parameter"),
@@ -437,11 +437,6 @@ final class SeriesCommand implements Callable<Integer> {
         }
         candidates.finish();
         out.flush();
-    }
-
-    /** @return the number of levels measured (distinct n per series), at most the number of members */
-    private static int levels(SeriesFit fit) {
-        return fit.series().stream().mapToInt(one -> one.principalNumbers().length).sum();
     }
 
     /** @return the text summary's account of the fit's chi-square probability */

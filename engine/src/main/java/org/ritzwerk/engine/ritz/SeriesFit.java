@@ -443,6 +443,14 @@ public final class SeriesFit {
     }
 
     /**
+     * @return the number of levels measured: the distinct n of each series, summed over the series (at most
+     *         the number of measurements, fewer where a level was measured more than once)
+     */
+    public int levelsMeasured() {
+        return series().stream().mapToInt(one -> one.principalNumbers().length).sum();
+    }
+
+    /**
      * @return data minus parameters: every member counts, each measurement of a level measured several times
      *         once (not each distinct n), and the known limit where given
      */

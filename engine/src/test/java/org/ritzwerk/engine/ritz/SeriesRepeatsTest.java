@@ -78,6 +78,7 @@ class SeriesRepeatsTest {
         Map<String, String> g = goldenModel(List.of(2, 2));
         assertEquals(Integer.parseInt(g.get("dof")), fit.degreesOfFreedom());
         assertEquals(38 - 5, fit.degreesOfFreedom());
+        assertEquals(32, fit.levelsMeasured(), "38 measurements of 32 levels");
         String[] names = {"a", "b"};
         for (int s = 0; s < 2; s++) {
             for (int k = 0; k < 2; k++) {
