@@ -3,6 +3,7 @@ package org.ritzwerk.cli;
 import java.io.PrintWriter;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.OptionalInt;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.lines.LineQuery;
@@ -161,10 +162,11 @@ final class AlkaliTables {
                     + "them");
             err.flush();
         }
+        edgeNote(atom, err, upper, lower);
     }
 
     /** The ladder table: the two steps' wavelengths and frequencies, with their standard uncertainties. */
-    static void ladder(AlkaliAtom atom, State[] states, PrintWriter out, Table.Format format) {
+    static void ladder(AlkaliAtom atom, State[] states, PrintWriter out, PrintWriter err, Table.Format format) {
         LadderExcitation ladder;
         try {
             ladder = atom.ladder(states[0], states[1], states[2]);
@@ -187,6 +189,48 @@ final class AlkaliTables {
                 ladder.secondVacuumMetres() * 1e9, air(ladder.secondVacuumMetres()) * 1e9, ladder.secondHz(),
                 ladder.secondUncertaintyHz());
         table.finish();
+        List<String> without = new ArrayList<>();
+        for (State state : states) {
+            if (!state.equals(atom.groundState()) && atom.level(state).energyUncertaintyPerCm().isEmpty()) {
+                without.add(state.notation());
+            }
+        }
+        if (Double.isNaN(ladder.firstUncertaintyHz()) || Double.isNaN(ladder.secondUncertaintyHz())) {
+            err.println("note: u Hz: not estimated ('-', null in JSON) for a step with a level whose energy has no "
+                    + "stated uncertainty (" + String.join(", ", without) + "); README, standard error, says which "
+                    + "levels have one");
+            err.flush();
+        }
+        edgeNote(atom, err, states);
+    }
+
+    /**
+     * What a note says of formula levels near their series' edge ({@link AlkaliAtom#seriesEdge}), after
+     * naming them.
+     */
+    static final String EDGE_NOTE = "Rydberg-Ritz formula level(s) fewer than " + AlkaliAtom.SERIES_EDGE_WINDOW
+            + " n above their series' lowest valid n, where the formula meets the tabulated levels only within 0.10 "
+            + "cm-1 (3 GHz): their stated u covers the published limit and defects, not the formula's truncation, "
+            + "and can be far too small there (Rb-87 10s is 0.026 cm-1 from its tabulated level, u 0.003 cm-1); "
+            + "README, standard error";
+
+    /**
+     * Notes the states given that are formula levels near their series' edge, once each, in the order given;
+     * nothing when none is.
+     */
+    static void edgeNote(AlkaliAtom atom, PrintWriter err, State... states) {
+        List<String> near = new ArrayList<>();
+        for (State state : states) {
+            OptionalInt edge = atom.seriesEdge(state);
+            String named = state.notation() + " (valid from n = " + edge.orElse(0) + ")";
+            if (edge.isPresent() && !near.contains(named)) {
+                near.add(named);
+            }
+        }
+        if (!near.isEmpty()) {
+            err.println("note: " + atom.species().notation() + " " + String.join(", ", near) + ": " + EDGE_NOTE);
+            err.flush();
+        }
     }
 
     /** Standard-air wavelength in metres, NaN (null in output) outside the air model. */

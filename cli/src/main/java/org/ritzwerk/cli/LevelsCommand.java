@@ -10,6 +10,7 @@ import java.util.OptionalInt;
 import java.util.concurrent.Callable;
 import java.util.function.DoubleConsumer;
 import org.ritzwerk.atom.Species;
+import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.hydrogenic.Notation;
 import org.ritzwerk.engine.levels.LevelQuery;
 import org.ritzwerk.engine.levels.LevelSet;
@@ -201,6 +202,10 @@ final class LevelsCommand implements Callable<Integer> {
         // alkali levels whose energy has no estimated uncertainty (shown '-'), to say so once per species
         java.util.Set<Species> alkaliSpecies = new java.util.HashSet<>();
         atoms.alkalis().forEach(atom -> alkaliSpecies.add(atom.species()));
+        Map<Species, AlkaliAtom> atomOf = new HashMap<>();
+        atoms.alkalis().forEach(atom -> atomOf.put(atom.species(), atom));
+        // formula levels near their series' edge, where the stated u says least (AlkaliAtom.seriesEdge)
+        Map<Species, List<String>> nearEdge = new java.util.LinkedHashMap<>();
         Map<Species, List<String>> notEstimated = new java.util.LinkedHashMap<>();
         Map<Species, Integer> lifetimeNotEstimated = new java.util.LinkedHashMap<>();
         Map<Species, DoubleConsumer> progress = new HashMap<>();
@@ -231,6 +236,15 @@ final class LevelsCommand implements Callable<Integer> {
                         if (part.energyUncertaintyPerCm(i).isEmpty() && alkaliSpecies.contains(part.species(i))) {
                             notEstimated.computeIfAbsent(part.species(i), k -> new ArrayList<>()).add(part.label(i));
                         }
+                        AlkaliAtom atom = atomOf.get(part.species(i));
+                        if (atom != null && part.n(i).isPresent() && part.l(i).isPresent() && part.twoJ(i).isPresent()) {
+                            State state = new State(part.n(i).getAsInt(), part.l(i).getAsInt(),
+                                    part.twoJ(i).getAsInt());
+                            List<String> near = nearEdge.computeIfAbsent(part.species(i), k -> new ArrayList<>());
+                            if (atom.seriesEdge(state).isPresent() && !near.contains(state.notation())) {
+                                near.add(state.notation());
+                            }
+                        }
                         if (hyperfine && part.twoF(i).isEmpty() && atoms.ions().isEmpty()) {
                             unsplit.computeIfAbsent(part.species(i), k -> new ArrayList<>()).add(part.label(i));
                         }
@@ -248,6 +262,13 @@ final class LevelsCommand implements Callable<Integer> {
                 + labels.get(0) + "): no uncertainty is stated for their series' quantum defects or the ionisation"
                 + " limit, or they are core-polarization, hydrogenic or hyperfine F levels; README, Rydberg states of"
                 + " alkali atoms, says which levels have one"));
+        nearEdge.forEach((species, states) -> {
+            if (!states.isEmpty()) {
+                spec.commandLine().getErr().println("note: " + species.notation() + ": " + states.size()
+                        + " level(s) (" + String.join(", ", states.subList(0, Math.min(8, states.size())))
+                        + (states.size() > 8 ? ", ..." : "") + ") are " + AlkaliTables.EDGE_NOTE);
+            }
+        });
         lifetimeNotEstimated.forEach((species, count) -> spec.commandLine().getErr().println("note: "
                 + species.notation() + ": u lifetime s is not estimated ('-', null in JSON) for " + count + " level(s):"
                 + " a lifetime carries one only where published dipole elements decide every decay channel (the first"

@@ -291,7 +291,7 @@ final class LinesCommand implements Callable<Integer> {
         } else {
             State[] states = AlkaliTables.ladder(ladder);
             AlkaliTables.checkRange("--ladder", atom, states);
-            AlkaliTables.ladder(atom, states, spec.commandLine().getOut(), format);
+            AlkaliTables.ladder(atom, states, spec.commandLine().getOut(), spec.commandLine().getErr(), format);
             spec.commandLine().getErr().println("note: --ladder: the steps join fine-structure centroids; hyperfine "
                     + "structure is left out, and a laser locked to a hyperfine component is MHz to GHz away from "
                     + "them (ritzwerk lines --species \"" + atom.species().notation() + "\" --hyperfine lists the "

@@ -1,6 +1,7 @@
 package org.ritzwerk.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
@@ -52,6 +53,31 @@ class AlkaliUncertaintyCommandTest {
         assertEquals(u, Double.parseDouble(row[header.indexOf("uncertainty_hz")]), 0.0);
         assertEquals(299_792_458.0 * u / (nu * nu) * 1e9, Double.parseDouble(row[header.indexOf("uncertainty_nm")]),
                 1e-12 * 299_792_458.0 * u / (nu * nu) * 1e9);
+    }
+
+    /**
+     * Formula levels near their series' edge carry a note wherever they are printed (AlkaliAtom.seriesEdge;
+     * Rb-87 10s misses the tabulated level by 9 stated uncertainties), and levels further up do not; a ladder
+     * step without a frequency uncertainty says why.
+     */
+    @Test
+    void formulaLevelsNearTheEdgeAreNotedAndAMissingLadderUncertaintyIsSaid() {
+        CliTest.Run near = CliTest.run("lines", "--species", "Rb-87 I", "--transition", "10s1/2 -> 5p3/2");
+        assertEquals(0, near.code(), near.err());
+        assertTrue(near.err().contains("note: Rb-87 I 10s 2S1/2 (valid from n = 10): Rydberg-Ritz formula level(s)"
+                + " fewer than 4 n above their series' lowest valid n"), near.err());
+        CliTest.Run far = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,60s1/2");
+        assertEquals(0, far.code(), far.err());
+        assertFalse(far.err().contains("lowest valid n") || far.err().contains("u Hz: not estimated"), far.err());
+        CliTest.Run levels = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "14", "--l-max", "0");
+        assertEquals(0, levels.code(), levels.err());
+        assertTrue(levels.err().contains("note: Rb-87 I: 4 level(s) (10s 2S1/2, 11s 2S1/2, 12s 2S1/2, 13s 2S1/2) are "
+                + "Rydberg-Ritz formula level(s)"), levels.err());
+        CliTest.Run k = CliTest.run("lines", "--species", "K-39 I", "--ladder", "4s1/2,4p3/2,60s1/2", "--format",
+                "json");
+        assertEquals(0, k.code(), k.err());
+        assertTrue(k.err().contains("note: u Hz: not estimated ('-', null in JSON) for a step with a level whose "
+                + "energy has no stated uncertainty (60s 2S1/2)"), k.err());
     }
 
     @Test

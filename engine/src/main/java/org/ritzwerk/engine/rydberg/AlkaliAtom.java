@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import java.util.OptionalInt;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
@@ -506,6 +507,34 @@ public final class AlkaliAtom {
                     + " for n up to " + MAX_N + " (as the level and line queries take them)");
         }
         return state;
+    }
+
+    /**
+     * A formula level this close to its series' {@code valid-from-n} (fewer than this many n above it) is
+     * near the series' edge: see {@link #seriesEdge}.
+     */
+    public static final int SERIES_EDGE_WINDOW = 4;
+
+    /**
+     * Where a level's stated uncertainty says least. A series' {@code valid-from-n} is the lowest n from which
+     * its Rydberg-Ritz formula meets the tabulated levels within 0.10 cm-1 (the built-in sets' rule), and the
+     * stated uncertainty of a formula level propagates the published limit and defects only, not the formula's
+     * truncation, which is largest there: Rb-87 10s misses the tabulated 31362.33 cm-1 by 0.026 cm-1 (786 MHz)
+     * against a stated 0.003 cm-1 ({@code fit-residuals.txt}, check 1). Callers say so beside such a level.
+     *
+     * @param state a state
+     * @return the series' {@code valid-from-n} when the state's energy comes from a quantum-defect formula
+     *         fewer than {@value #SERIES_EDGE_WINDOW} n above it; empty for every other state (measured,
+     *         further up, core-polarization or hydrogenic)
+     */
+    public OptionalInt seriesEdge(State state) {
+        Objects.requireNonNull(state, "state");
+        QuantumDefects.Series s = series.get(key(state.l(), state.twoJ()));
+        if (s == null || measured.containsKey(state) || state.n() < s.validFromN()
+                || state.n() >= s.validFromN() + SERIES_EDGE_WINDOW) {
+            return OptionalInt.empty();
+        }
+        return OptionalInt.of(s.validFromN());
     }
 
     /** The level of any state, n not limited (black-body neighbours of a state near MAX_N). */
