@@ -264,6 +264,12 @@ final class LinesCommand implements Callable<Integer> {
         }
         HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, AxisMedium.isAir(medium),
                 spec.commandLine().getOut(), format);
+        if (fieldTesla != null && fieldTesla > 0) {
+            for (AlkaliAtom atom : atoms.alkalis()) {
+                spec.commandLine().getErr().println(HyperfineTables.diamagneticNote(atom, fieldTesla));
+            }
+            spec.commandLine().getErr().flush();
+        }
         return 0;
     }
 

@@ -110,6 +110,32 @@ public final class ZeemanStructure {
     }
 
     /**
+     * The diamagnetic shift that the Zeeman components leave out: the field's second-order term
+     * {@code e^2 B^2 <x^2 + y^2> / (8 m_e)}, with {@code <x^2 + y^2> = (2/3) <r^2>} averaged over
+     * directions (exact for an s level; for others it depends on m_l by tens of per cent) (common
+     * practice: the A^2 term of the minimal-coupling Hamiltonian in the symmetric gauge), in hertz,
+     * with a0 = h / (2 pi m_e c alpha) from CODATA 2018. Rb 5s ({@code <r^2>} about 30 a0^2) moves
+     * about 0.3 MHz at 1 T; a line moves by the difference of its two levels' shifts.
+     *
+     * @param meanSquareRadiusBohr2 the level's {@code <r^2>}, a0^2 (for an alkali level,
+     *                              {@code AlkaliAtom.expectationBohr(state, 2)}); finite, not negative
+     * @param fieldTesla            the field, tesla, 0 to {@link #MAX_FIELD_TESLA}
+     * @return the level's upward shift, Hz
+     */
+    public static double diamagneticShiftHertz(double meanSquareRadiusBohr2, double fieldTesla) {
+        checkField(fieldTesla);
+        if (!(meanSquareRadiusBohr2 >= 0) || Double.isInfinite(meanSquareRadiusBohr2)) {
+            throw new IllegalArgumentException("<r^2> must be finite and not negative, got " + meanSquareRadiusBohr2);
+        }
+        double e = PhysicalConstants.ELEMENTARY_CHARGE.value();
+        double m = PhysicalConstants.ELECTRON_MASS.value();
+        double h = PhysicalConstants.PLANCK.value();
+        double bohr = h / (2 * Math.PI * m * PhysicalConstants.SPEED_OF_LIGHT.value()
+                * PhysicalConstants.FINE_STRUCTURE.value());
+        return e * e * fieldTesla * fieldTesla * (2.0 / 3) * meanSquareRadiusBohr2 * bohr * bohr / (8 * m * h);
+    }
+
+    /**
      * @param momentNuclearMagnetons the nuclear magnetic moment mu_I / mu_N; finite
      * @param twoI                   2 I, 1 or more
      * @return g_I = -(mu_I / mu_N) (m_e / m_p) / I, in units of mu_B (negative for a positive moment)

@@ -15,6 +15,22 @@ class ZeemanStructureTest {
     private static final double G_J = 2.00233113; // Rb 5s g_J (from memory; any value serves these identities)
     private static final double G_I = -0.0009951414;
 
+    /**
+     * The diamagnetic shift e^2 B^2 (2/3) r2 a0^2 / (8 m_e h) against the same formula with scipy 1.17.1's
+     * scipy.constants (CODATA 2022; the engine has CODATA 2018, a difference below 1e-9 here), computed offline:
+     * {@code python3 -c "from scipy import constants as c; a0 = c.physical_constants['Bohr radius'][0];
+     * print(c.e**2 * B**2 * (2/3) * r2 * a0**2 / (8 * c.m_e * c.h))"}.
+     */
+    @Test
+    void diamagneticShiftAgainstScipyConstants() {
+        assertEquals(293757.1811831305, ZeemanStructure.diamagneticShiftHertz(29.6, 1.0), 293757.18 * 1e-8);
+        assertEquals(5855.29516547456, ZeemanStructure.diamagneticShiftHertz(59.0, 0.1), 5855.3 * 1e-8);
+        assertEquals(9.924229094024678, ZeemanStructure.diamagneticShiftHertz(1000.0, 1e-3), 9.92 * 1e-8);
+        assertEquals(0.0, ZeemanStructure.diamagneticShiftHertz(29.6, 0));
+        assertThrows(IllegalArgumentException.class, () -> ZeemanStructure.diamagneticShiftHertz(-1, 1));
+        assertThrows(IllegalArgumentException.class, () -> ZeemanStructure.diamagneticShiftHertz(1, 1001));
+    }
+
     @Test
     void constantsFromCodata2018() {
         // CODATA 2018: mu_B/h = 13.996 244 936 1(42) GHz/T; g_e = -2.002 319 304 362 56(35) (from memory)
