@@ -163,6 +163,7 @@ final class AlkaliTables {
             err.flush();
         }
         edgeNote(atom, err, upper, lower);
+        sourcesNote(atom, err, new State[] {upper, lower}, lower, upper);
     }
 
     /** The ladder table: the two steps' wavelengths and frequencies, with their standard uncertainties. */
@@ -202,6 +203,7 @@ final class AlkaliTables {
             err.flush();
         }
         edgeNote(atom, err, states);
+        sourcesNote(atom, err, states);
     }
 
     /**
@@ -231,6 +233,34 @@ final class AlkaliTables {
             err.println("note: " + atom.species().notation() + " " + String.join(", ", near) + ": " + EDGE_NOTE);
             err.flush();
         }
+    }
+
+    /**
+     * The note naming the source of each level energy behind a table (the ground level, the zero of the
+     * scale, is left out) and, for the pairs given, of each dipole element.
+     *
+     * @param pairs lower and upper states of the dipole elements shown, two per pair; empty for none
+     */
+    static void sourcesNote(AlkaliAtom atom, PrintWriter err, State[] states, State... pairs) {
+        List<String> items = new ArrayList<>();
+        for (State state : states) {
+            String item = state.notation() + " energy: " + atom.energySource(state);
+            if (!state.equals(atom.groundState()) && !items.contains(item)) {
+                items.add(item);
+            }
+        }
+        for (int i = 0; i + 1 < pairs.length; i += 2) {
+            State a = pairs[i];
+            State b = pairs[i + 1];
+            items.add(a.notation() + " - " + b.notation() + " dipole element: " + atom.publishedDipole(a, b)
+                    .map(d -> d.source()).orElse("Coulomb approximation (computed; no published element listed)"));
+        }
+        if (pairs.length > 0) {
+            items.add("lifetimes: the sum over each level's decay channels, each with a published element where one "
+                    + "is listed, else the Coulomb approximation");
+        }
+        err.println("note: " + atom.species().notation() + " sources: " + String.join("; ", items));
+        err.flush();
     }
 
     /** Standard-air wavelength in metres, NaN (null in output) outside the air model. */

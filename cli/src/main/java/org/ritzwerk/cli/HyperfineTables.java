@@ -102,6 +102,22 @@ final class HyperfineTables {
 
     /** Adds frequency, offset from the centroid, vacuum wavelength and (for air) the air wavelength. */
     /**
+     * The note naming the sources of an atom's D-line centroids and hyperfine constants, with their provenance.
+     */
+    static String sourcesNote(DataContext context, AlkaliAtom atom) {
+        AlkaliHyperfine data = context.alkaliHyperfine();
+        List<String> items = new java.util.ArrayList<>();
+        for (AlkaliHyperfine.DLine d : data.dLines(atom.species())) {
+            items.add(d.line() + " centroid: " + d.source() + " (" + d.provenance().id() + ")");
+        }
+        for (AlkaliHyperfine.LevelConstants c : data.constants(atom.species())) {
+            items.add(c.state().notation() + " A, B: " + c.source() + " (" + c.provenance().id() + ")");
+        }
+        return "note: " + atom.species().notation() + " sources: " + String.join("; ", items)
+                + "; nuclear spin and moment: the isotope table (ritzwerk data show nuclear-isotopes)";
+    }
+
+    /**
      * The note that the components leave out the diamagnetic shift, with its size on each D line at this field:
      * the difference of the two levels' {@code ZeemanStructure.diamagneticShiftHertz}, each from the model's
      * {@code <r^2>}.

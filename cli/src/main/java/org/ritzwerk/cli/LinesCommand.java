@@ -264,6 +264,9 @@ final class LinesCommand implements Callable<Integer> {
         }
         HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, AxisMedium.isAir(medium),
                 spec.commandLine().getOut(), format);
+        for (AlkaliAtom atom : atoms.alkalis()) {
+            spec.commandLine().getErr().println(HyperfineTables.sourcesNote(data.context(), atom));
+        }
         if (fieldTesla != null && fieldTesla > 0) {
             for (AlkaliAtom atom : atoms.alkalis()) {
                 spec.commandLine().getErr().println(HyperfineTables.diamagneticNote(atom, fieldTesla));

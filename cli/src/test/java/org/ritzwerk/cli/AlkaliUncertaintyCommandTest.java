@@ -68,6 +68,18 @@ class AlkaliUncertaintyCommandTest {
                 + " fewer than 4 n above their series' lowest valid n"), near.err());
         CliTest.Run far = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,60s1/2");
         assertEquals(0, far.code(), far.err());
+        // every number's source is named (the data files' own source texts)
+        assertTrue(far.err().contains("note: Rb-87 I sources: 5p 2P3/2 energy: d-lines: D2 centroid "
+                + "384230484.4685(0.0062) MHz, J. Ye") && far.err().contains("60s 2S1/2 energy: Rydberg-Ritz formula "
+                + "of quantum-defects-rb-87 (from memory: J. Han"), far.err());
+        assertTrue(near.err().contains("5p 2P3/2 - 10s 2S1/2 dipole element: Coulomb approximation (computed; no "
+                + "published element listed)"), near.err());
+        CliTest.Run d2 = CliTest.run("lines", "--species", "Rb-87 I", "--transition", "5p3/2 -> 5s1/2");
+        assertTrue(d2.err().contains("5s 2S1/2 - 5p 2P3/2 dipole element: deduced from the lifetime 26.20 ns of "
+                + "5p3/2: S. Aubin"), d2.err());
+        CliTest.Run hyperfine = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--format", "json");
+        assertTrue(hyperfine.err().contains("note: Rb-87 I sources: D1 centroid: M. Maric") && hyperfine.err()
+                .contains("5s 2S1/2 A, B: S. Bize") && hyperfine.err().contains("(from-memory)"), hyperfine.err());
         assertFalse(far.err().contains("lowest valid n") || far.err().contains("u Hz: not estimated"), far.err());
         CliTest.Run levels = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "14", "--l-max", "0");
         assertEquals(0, levels.code(), levels.err());

@@ -65,6 +65,20 @@ class AlkaliUncertaintyTest {
         }
     }
 
+    /** Every level names where its energy comes from (the files' own sources, as the data files give them). */
+    @Test
+    void everyLevelNamesItsSource() {
+        AlkaliAtom rb = DATA.alkaliAtom(Species.parse("Rb-87 I"));
+        assertTrue(rb.energySource(State.parse("5p3/2")).startsWith("d-lines: D2 centroid 384230484.4685(0.0062) MHz,"
+                + " J. Ye"), rb.energySource(State.parse("5p3/2")));
+        assertTrue(rb.energySource(State.parse("4d5/2")).startsWith("levels-rb-87 (from memory: NIST Atomic Spectra"),
+                rb.energySource(State.parse("4d5/2")));
+        assertTrue(rb.energySource(State.parse("60s1/2")).startsWith("Rydberg-Ritz formula of quantum-defects-rb-87 "
+                + "(from memory: J. Han"), rb.energySource(State.parse("60s1/2")));
+        assertEquals("core-polarization formula with the core polarizabilities of quantum-defects-rb-87",
+                rb.energySource(State.parse("30h11/2")));
+    }
+
     @Test
     void transitionsAgainstHandPropagation() {
         double fTol = Golden.tolerance(GOLDEN);

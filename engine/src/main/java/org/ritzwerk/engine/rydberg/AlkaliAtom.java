@@ -537,6 +537,28 @@ public final class AlkaliAtom {
         return OptionalInt.of(s.validFromN());
     }
 
+    /**
+     * Where a level's energy comes from, for a user: a measured level's source as its file gives it (for the
+     * first p levels of the built-in isotopes, the D-line centroid's measurement), the quantum-defect set with
+     * its provenance for a formula level, or the model otherwise.
+     *
+     * @param state a state, n at most {@value #MAX_N}
+     * @return the source, in words
+     * @throws RydbergException when the model has no energy for it (as {@link #level})
+     */
+    public String energySource(State state) {
+        Level level = level(state);
+        MeasuredLevel m = measured.get(state);
+        return switch (level.origin()) {
+            case MEASURED -> m.source();
+            case QUANTUM_DEFECT_FIT -> "Rydberg-Ritz formula of " + defects.info().id() + " ("
+                    + defects.info().provenance().render() + ")";
+            case CORE_POLARIZATION -> "core-polarization formula with the core polarizabilities of "
+                    + defects.info().id();
+            case HYDROGENIC -> "hydrogenic formula with the limit of " + defects.info().id();
+        };
+    }
+
     /** The level of any state, n not limited (black-body neighbours of a state near MAX_N). */
     private Level levelOf(State state) {
         double r = defects.rydbergPerCm();
