@@ -328,7 +328,9 @@ public final class AlkaliHyperfine {
      * @param context the data context (nuclear spin, the atom's hyperfine-free level)
      * @param species an isotope
      * @param state   a level, e.g. 5p 2P3/2
-     * @return its F levels by rising F, or empty when this level has no constants here
+     * @return its F levels by rising F, or empty when this level has no measured constants here, as for
+     *         every Rydberg level (their scaled constants are in {@link RydbergHyperfine#fLevels});
+     *         {@link DataContext#hyperfineLevels} asks both
      */
     public List<FLevel> fLevels(DataContext context, Species species, State state) {
         Objects.requireNonNull(context, "context");

@@ -273,7 +273,8 @@ public final class RydbergHyperfine {
      * @param species an isotope
      * @param state   a level, e.g. 60s 2S1/2
      * @return its F levels by rising F, energies above the ground level's hyperfine-free centroid
-     *         in cm^-1; empty when {@link #constants} is
+     *         in cm^-1; empty when {@link #constants} is, as for the low levels with measured constants
+     *         ({@link AlkaliHyperfine#fLevels}): {@link DataContext#hyperfineLevels} asks both
      */
     public List<AlkaliHyperfine.FLevel> fLevels(DataContext context, Species species, State state) {
         Optional<HyperfineConstants> c = constants(context, species, state);
