@@ -55,8 +55,8 @@ import org.ritzwerk.data.QuantumDefects;
  * 0,1/2,3.1311807,0.1787,0,0,0,0.0000008,0.0002,,,,from-memory,10,from-memory,Mack et al. ...,check 1: ...
  * </pre>
  * The ionisation limit, above the hyperfine centroid of the ground level, is given either as
- * {@code limit-per-cm} (cm^-1) or as {@code limit}: a number and its unit ({@code cm-1}, {@code GHz},
- * {@code MHz} or {@code kHz}), the digits and unit its publication prints, converted here exactly
+ * {@code limit-per-cm} (cm^-1) or as {@code limit}: a number and its unit ({@code cm-1}, {@code THz},
+ * {@code GHz}, {@code MHz} or {@code kHz}), the digits and unit its publication prints, converted here exactly
  * (c = 299 792 458 m/s); {@code limit-from}, in the same units, is the energy above that centroid
  * of the level the published limit is measured from (a ground hyperfine level F; 0 when absent).
  * One row per series (l, j = l +- 1/2); trailing zero coefficients are dropped; the last two
@@ -87,7 +87,7 @@ public final class QuantumDefectFiles {
     private static final List<String> REQUIRED = List.of("id", "title", "species", "source", "provenance", "version",
             "limit-provenance", "limit-source");
     /** The units {@code limit} and {@code limit-from} may carry. */
-    public static final List<String> LIMIT_UNITS = List.of("cm-1", "GHz", "MHz", "kHz");
+    public static final List<String> LIMIT_UNITS = List.of("cm-1", "THz", "GHz", "MHz", "kHz");
     private static final Set<String> KNOWN = Set.of("id", "title", "species", "source", "provenance", "version",
             "limit-per-cm", "limit", "limit-from", "limit-uncertainty", "limit-provenance", "limit-source",
             "limit-check",
@@ -600,6 +600,7 @@ public final class QuantumDefectFiles {
     private static double perCm(double value, String unit) {
         return switch (unit) {
             case "cm-1" -> value;
+            case "THz" -> value * 1e12 / (PhysicalConstants.C * 100);
             case "GHz" -> value * 1e9 / (PhysicalConstants.C * 100);
             case "MHz" -> value * 1e6 / (PhysicalConstants.C * 100);
             default -> value * 1e3 / (PhysicalConstants.C * 100);

@@ -100,6 +100,7 @@ class IonisationLimitsTest {
         assertEquals(33690.9, read("# limit: 33690.9 cm-1\n").defects().limitPerCm(), 0.0);
         assertEquals(1010029.1646e9 / HZ_PER_CM, read("# limit: 1010029.1646 GHz\n").defects().limitPerCm(), 0.0);
         assertEquals(1010029164.6e6 / HZ_PER_CM, read("# limit: 1010029164.6 MHz\n").defects().limitPerCm(), 1e-9);
+        assertEquals(1010.0291646e12 / HZ_PER_CM, read("# limit: 1010.0291646 THz\n").defects().limitPerCm(), 1e-9);
         assertEquals((1010029.1646e9 - 4271.676631815e6) / HZ_PER_CM,
                 read("# limit: 1010029.1646 GHz\n# limit-from: -4271.676631815 MHz\n").defects().limitPerCm(), 1e-9);
         assertEquals(33690.9 + 1e6 / HZ_PER_CM, read("# limit: 33690.9 cm-1\n# limit-from: 1000 kHz\n").defects()
@@ -108,8 +109,8 @@ class IonisationLimitsTest {
 
     @Test
     void aBadLimitIsRefusedWithItsLineAndKey() {
-        expectProblem("# limit: 1010029.1646 THz\n", "qd.bad-limit", 10, "limit must be a decimal number and one of the "
-                + "units cm-1, GHz, MHz, kHz");
+        expectProblem("# limit: 1010029.1646 PHz\n", "qd.bad-limit", 10, "limit must be a decimal number and one of the "
+                + "units cm-1, THz, GHz, MHz, kHz");
         expectProblem("# limit: 1010029.1646\n", "qd.bad-limit", 10, "got '1010029.1646'");
         expectProblem("# limit: NaN GHz\n", "qd.bad-limit", 10, "got 'NaN GHz'");
         expectProblem("# limit: 1e6 GHz\n", "qd.bad-limit", 10, "got '1e6 GHz'");
