@@ -348,7 +348,7 @@ class RowFormTest {
     private static Row calibration(String id, double a0) {
         return RowFactory.create(id, 4, "air", 1, 1.5, 1.5, new double[] {a0, 1.0}, null, null, null, 0.0, 3.0, 0.01,
                 0.1, 1.0, 5, 0, 6, 5, 5, 1.0, 1.0, 0, new String[] {"Ne I 585.249"}, "test", null, null, null, null,
-                new String[0]);
+                null, new String[0]);
     }
 
     @Test
