@@ -240,6 +240,11 @@ class RowFormTest {
                 spark.createDataFrame(calibrations, Schemas.CALIBRATIONS)).orderBy("id").collectAsList();
         assertEquals(2, applied.size());
         assertEquals(499.0, applied.get(0).getList(3).get(0)); // pixel 0: x = -1
+        // A table stored before the next degree's weight was kept (no higher_degree_weight column)
+        // is applied as if it were null: the same rows (compared as text: they hold NaN sigmas).
+        assertEquals(applied.toString(), SurveyCalibration.apply(spark.createDataFrame(science, Schemas.SCIENCE),
+                spark.createDataFrame(calibrations, Schemas.CALIBRATIONS).drop("higher_degree_weight"))
+                .orderBy("id").collectAsList().toString());
         calibrations.add(calibration("cal-2", 601.0));
         message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(spark.createDataFrame(science,
                 Schemas.SCIENCE), spark.createDataFrame(calibrations, Schemas.CALIBRATIONS)).count());
