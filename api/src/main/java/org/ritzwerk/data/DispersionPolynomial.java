@@ -25,6 +25,13 @@ import org.ritzwerk.medium.Medium;
  * the range so that it covers it (its own uncertainty plus its distance from this polynomial).
  * Both are null when the lines did not determine it, and for polynomials made before it was kept.
  *
+ * <p><b>Between the fitted lines.</b> When the degree was chosen automatically and the higher
+ * polynomial is of the next degree, {@link #higherDegreeWeight()} is that degree's Akaike weight
+ * against the chosen one: how much support the lines give it. The engine then states, between the
+ * lines too, at least the unconditional uncertainty of the choice between the two degrees (the
+ * model-selection uncertainty of S. T. Buckland, K. P. Burnham and N. H. Augustin, Biometrics 53,
+ * 603 (1997)). NaN when not known (a fixed degree, another higher degree, older polynomials).
+ *
  * <p><b>Units.</b> Pixels are 0-based with pixel i centred at i. Coefficients in nm, covariance
  * in nm^2, the wavelengths in the {@link #medium()} given.
  *
@@ -44,10 +51,13 @@ import org.ritzwerk.medium.Medium;
  *                                 when not known
  * @param higherDegreeCovariance   their (e + 1) x (e + 1) covariance in nm^2, with the same checks
  *                                 as the covariance; null exactly when the coefficients are
+ * @param higherDegreeWeight       the Akaike weight of the higher degree e = d + 1 against degree
+ *                                 d, 0 to 1, when the degree was chosen automatically; NaN when
+ *                                 not known (always NaN without a higher degree, or when e &gt; d + 1)
  */
 public record DispersionPolynomial(Medium medium, double centrePixel, double halfRange, double[] coefficients,
         double[][] covariance, double lowestPixel, double highestPixel, double[] higherDegreeCoefficients,
-        double[][] higherDegreeCovariance) {
+        double[][] higherDegreeCovariance, double higherDegreeWeight) {
 
     /**
      * A polynomial without a higher degree's (see the class comment).
@@ -67,6 +77,27 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
     }
 
     /**
+     * A polynomial with a higher degree's whose weight is not known (NaN; see the class comment).
+     *
+     * @param medium       the medium of the wavelengths
+     * @param centrePixel  the pixel at which x = 0; finite
+     * @param halfRange    pixels per unit of x; finite and positive
+     * @param coefficients a_0 .. a_d in nm; at least two, finite
+     * @param covariance   their (d + 1) x (d + 1) covariance in nm^2, or null when unknown
+     * @param lowestPixel  the lowest pixel of the range the polynomial is valid for; finite
+     * @param highestPixel the highest pixel of that range; finite, above the lowest
+     * @param higherDegreeCoefficients b_0 .. b_e in nm, e &gt; d, finite; or null
+     * @param higherDegreeCovariance   their covariance in nm^2; null exactly when the coefficients are
+     * @throws IllegalArgumentException naming the first unusable component
+     */
+    public DispersionPolynomial(Medium medium, double centrePixel, double halfRange, double[] coefficients,
+            double[][] covariance, double lowestPixel, double highestPixel, double[] higherDegreeCoefficients,
+            double[][] higherDegreeCovariance) {
+        this(medium, centrePixel, halfRange, coefficients, covariance, lowestPixel, highestPixel,
+                higherDegreeCoefficients, higherDegreeCovariance, Double.NaN);
+    }
+
+    /**
      * Validates and copies.
      *
      * @param medium       the medium of the wavelengths
@@ -80,6 +111,8 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
      * @param higherDegreeCoefficients b_0 .. b_e in nm, e &gt; d, finite: a higher degree's
      *                                 polynomial fitted to the same lines; or null
      * @param higherDegreeCovariance   their covariance in nm^2; null exactly when the coefficients are
+     * @param higherDegreeWeight       the next degree's Akaike weight, 0 to 1, or NaN when not known;
+     *                                 NaN unless the higher degree is d + 1
      * @throws IllegalArgumentException naming the first unusable component
      */
     public DispersionPolynomial {
@@ -125,6 +158,17 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
             higherDegreeCoefficients = higherDegreeCoefficients.clone();
             checkCovariance(higherDegreeCovariance, higherDegreeCoefficients.length, "higher-degree ");
             higherDegreeCovariance = copy(higherDegreeCovariance);
+        }
+        if (!Double.isNaN(higherDegreeWeight)) {
+            if (!(higherDegreeWeight >= 0 && higherDegreeWeight <= 1)) {
+                throw new IllegalArgumentException("the higher degree's weight must be 0 to 1 (or NaN when not known),"
+                        + " got " + higherDegreeWeight);
+            }
+            if (higherDegreeCoefficients == null || higherDegreeCoefficients.length != k + 1) {
+                throw new IllegalArgumentException("the higher degree's weight " + higherDegreeWeight + " needs a"
+                        + " higher degree of d + 1 = " + k + ", got " + (higherDegreeCoefficients == null ? "none"
+                                : "degree " + (higherDegreeCoefficients.length - 1)));
+            }
         }
         if (!(Double.isFinite(lowestPixel) && Double.isFinite(highestPixel) && highestPixel > lowestPixel)) {
             throw new IllegalArgumentException("the valid range needs finite lowest < highest pixel, got "
@@ -289,14 +333,15 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
                 && Double.compare(lowestPixel, that.lowestPixel) == 0
                 && Double.compare(highestPixel, that.highestPixel) == 0
                 && Arrays.equals(higherDegreeCoefficients, that.higherDegreeCoefficients)
-                && Arrays.deepEquals(higherDegreeCovariance, that.higherDegreeCovariance);
+                && Arrays.deepEquals(higherDegreeCovariance, that.higherDegreeCovariance)
+                && Double.compare(higherDegreeWeight, that.higherDegreeWeight) == 0;
     }
 
     @Override
     public int hashCode() {
         return Objects.hash(medium, centrePixel, halfRange, Arrays.hashCode(coefficients),
                 Arrays.deepHashCode(covariance), lowestPixel, highestPixel, Arrays.hashCode(higherDegreeCoefficients),
-                Arrays.deepHashCode(higherDegreeCovariance));
+                Arrays.deepHashCode(higherDegreeCovariance), higherDegreeWeight);
     }
 
     @Override
@@ -305,6 +350,7 @@ public record DispersionPolynomial(Medium medium, double centrePixel, double hal
                 + halfRange + ", coefficients=" + Arrays.toString(coefficients) + ", covariance="
                 + Arrays.deepToString(covariance) + ", lowestPixel=" + lowestPixel + ", highestPixel=" + highestPixel
                 + ", higherDegreeCoefficients=" + Arrays.toString(higherDegreeCoefficients)
-                + ", higherDegreeCovariance=" + Arrays.deepToString(higherDegreeCovariance) + "]";
+                + ", higherDegreeCovariance=" + Arrays.deepToString(higherDegreeCovariance) + ", higherDegreeWeight="
+                + higherDegreeWeight + "]";
     }
 }

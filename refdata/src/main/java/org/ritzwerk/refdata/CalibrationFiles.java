@@ -35,6 +35,9 @@ import tools.jackson.databind.node.ObjectNode;
  *   "higher_degree_coefficients_nm": [b0, ...],  a higher degree's polynomial fitted to the same
  *   "higher_degree_covariance_nm2": [[...], ...], lines and its covariance: beyond valid_pixels the
  *                                         stated uncertainty covers it; both absent when unknown
+ *   "higher_degree_weight": 0.27,         when that degree is the next one and the degree was chosen:
+ *                                         its Akaike weight, with which the stated uncertainty between
+ *                                         the lines covers the choice; absent when unknown
  *   "power_coefficients_nm": [c0, c1, ...] the same polynomial in the pixel itself, for reference
  *   "degree": 3, "rms_nm": ..., "rms_pixels": ..., "reduced_chi_square": ...,
  *   "lines_used": 31, "lines_rejected": 2,
@@ -48,8 +51,9 @@ import tools.jackson.databind.node.ObjectNode;
  * Pixel p (0-based) has its centre at p. The file holds a {@link CalibrationRecord} (api): the
  * solution's members (medium, pixels, valid_pixels, centre_pixel, half_range, coefficients_nm,
  * covariance_nm2) are required, and higher_degree_coefficients_nm with higher_degree_covariance_nm2
- * are read when present (a file written before they were kept has none: its uncertainty beyond
- * valid_pixels is then the covariance's alone); the record of how it was made (description, rms_nm, rms_pixels,
+ * (and higher_degree_weight) are read when present (a file written before they were kept has
+ * none: its uncertainty beyond valid_pixels is then the covariance's alone, and between the lines
+ * it has no widening for the degree choice); the record of how it was made (description, rms_nm, rms_pixels,
  * reduced_chi_square, lines, saturated_lines) may be absent or null (a hand-written file of
  * stored coefficients), and is checked when present: each line's residual_nm must be its
  * wavelength minus the solution at its pixel (to 1e-6 nm), so a file whose coefficients were
@@ -196,6 +200,9 @@ public final class CalibrationFiles {
                 higher.add(c);
             }
             putMatrix(root, "higher_degree_covariance_nm2", polynomial.higherDegreeCovariance());
+            if (!Double.isNaN(polynomial.higherDegreeWeight())) {
+                root.put("higher_degree_weight", polynomial.higherDegreeWeight());
+            }
         }
         ArrayNode power = root.putArray("power_coefficients_nm");
         for (double c : polynomial.powerCoefficients()) {
@@ -322,11 +329,12 @@ public final class CalibrationFiles {
                         + "\"higher_degree_coefficients_nm\"");
             }
         }
+        double higherWeight = optionalNumber(source, root, "higher_degree_weight", "");
         String description = root.path("description").asString("");
         DispersionPolynomial polynomial;
         try {
             polynomial = new DispersionPolynomial(medium, centre, halfRange, coefficients, covariance, valid[0],
-                    valid[1], higher, higherCovariance);
+                    valid[1], higher, higherCovariance, higherWeight);
         } catch (IllegalArgumentException e) {
             throw invalid(source, e.getMessage());
         }

@@ -233,7 +233,12 @@ public final class Schemas {
      * (how well the other fitted lines predict each outermost line's pixel, the engine's
      * {@code Calibration.endConfirmationPixels}; null when too few lines remain for the degree);
      * {@code failure_code} and {@code failure} when the job refused
-     * the exposure (every other column but id, pixels and notes then null); {@code notes} (what the
+     * the exposure (every other column but id, pixels and notes then null);
+     * {@code higher_degree_weight} (the Akaike weight of the higher degree against the chosen one
+     * when it is the next degree and the degree was chosen, the api's
+     * {@code DispersionPolynomial.higherDegreeWeight}: with it the stated uncertainty between the
+     * lines covers the choice of degree; null when not known, and a table without the column is
+     * applied as if null); {@code notes} (what the
      * {@code calibrate} command prints as notes: how a lamp without a lamp set was built from its
      * level list, lines of the lists used once or left out, a saturation level taken from the
      * exposure, an end where the solution rests on one pairing; empty when there is nothing to
@@ -260,7 +265,9 @@ public final class Schemas {
      * <li>null when refused, and in an accepted row when too few pairs remain for the degree to
      * predict an outermost line, or the fit has no covariance: {@code end_check_low_pixels},
      * {@code end_check_high_pixels};</li>
-     * <li>null exactly when the exposure was accepted: {@code failure_code}, {@code failure}.</li>
+     * <li>null exactly when the exposure was accepted: {@code failure_code}, {@code failure};</li>
+     * <li>null when refused, and in an accepted row when not known (see above):
+     * {@code higher_degree_weight}.</li>
      * </ul>
      */
     public static final StructType CALIBRATIONS = struct(
@@ -293,6 +300,7 @@ public final class Schemas {
             optional("end_check_high_pixels", DataTypes.DoubleType),
             optional("failure_code", DataTypes.StringType),
             optional("failure", DataTypes.StringType),
+            optional("higher_degree_weight", DataTypes.DoubleType),
             required("notes", STRINGS));
 
     /** The columns of {@link #SCIENCE}: required ones not nullable, optional ones nullable. */

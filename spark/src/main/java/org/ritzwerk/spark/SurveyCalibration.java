@@ -7,6 +7,7 @@ import static org.apache.spark.sql.functions.lit;
 import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
+import java.util.Locale;
 import java.util.Objects;
 import org.apache.spark.api.java.function.MapPartitionsFunction;
 import org.apache.spark.sql.Dataset;
@@ -14,6 +15,7 @@ import org.apache.spark.sql.Encoders;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.RowFactory;
 import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.sql.types.DataTypes;
 import org.apache.spark.sql.types.StructType;
 import org.ritzwerk.RitzwerkException;
 import org.ritzwerk.data.DispersionPolynomial;
@@ -121,7 +123,7 @@ public final class SurveyCalibration {
     /** The columns of a calibration that applying it reads, in this order after the science columns. */
     private static final String[] APPLIED = {"id", "pixels", "medium", "centre_pixel", "half_range", "coefficients",
         "covariance", "higher_degree_coefficients", "higher_degree_covariance", "lowest_pixel", "highest_pixel",
-        "failure_code", "failure"};
+        "failure_code", "failure", "higher_degree_weight"};
 
     /**
      * @param science      a table with the columns of {@link Schemas#SCIENCE}
@@ -184,8 +186,12 @@ public final class SurveyCalibration {
         }
         Fields.of(calibrations.schema(), wanted, "calibration");
         org.apache.spark.sql.Column[] right = new org.apache.spark.sql.Column[APPLIED.length];
+        List<String> present = java.util.Arrays.stream(calibrations.columns()).map(c -> c.toLowerCase(Locale.ROOT))
+                .toList();
         for (int k = 0; k < APPLIED.length; k++) {
-            right[k] = col(APPLIED[k]).as("c_" + APPLIED[k]);
+            // a table stored before the higher degree's weight was kept is applied as if it were null
+            boolean absentWeight = APPLIED[k].equals("higher_degree_weight") && !present.contains(APPLIED[k]);
+            right[k] = (absentWeight ? lit(null).cast(DataTypes.DoubleType) : col(APPLIED[k])).as("c_" + APPLIED[k]);
         }
         // How many calibrations carry each id: the join would give a spectrum one row per copy.
         Dataset<Row> copies = calibrations.groupBy(col("id").as("c_key")).agg(count(lit(1)).as("c_copies"));
@@ -196,7 +202,7 @@ public final class SurveyCalibration {
                         col("c_medium"), col("c_centre_pixel"), col("c_half_range"), col("c_coefficients"),
                         col("c_covariance"), col("c_higher_degree_coefficients"), col("c_higher_degree_covariance"),
                         col("c_lowest_pixel"), col("c_highest_pixel"), col("c_failure_code"),
-                        col("c_failure"), left.col(Setups.COPIES), col("c_copies"));
+                        col("c_failure"), left.col(Setups.COPIES), col("c_copies"), col("c_higher_degree_weight"));
         return joined;
     }
 
@@ -255,7 +261,7 @@ public final class SurveyCalibration {
             } catch (RitzwerkException e) {
                 return Catalyst.row(Catalyst.utf8(id), pixels, null, null, null, null, null, null, null, null, null,
                         null, null, null, null, null, null, null, null, null, null, null, null, null, null, null, null,
-                        Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()), notes(lampNotes));
+                        Catalyst.utf8(e.code()), Catalyst.utf8(e.getMessage()), null, notes(lampNotes));
             }
             DispersionSolution solution = calibration.solution();
             DispersionPolynomial polynomial = solution.polynomial();
@@ -276,7 +282,7 @@ public final class SurveyCalibration {
                     finite(calibration.coverage()), calibration.saturatedPeaks(), Catalyst.array(lines),
                     Catalyst.utf8(calibration.description()), finite(calibration.endConfirmationPixels(false)),
                     finite(calibration.endConfirmationPixels(true)), null, null,
-                    notes(lampNotes, calibration.notes()));
+                    finite(polynomial.higherDegreeWeight()), notes(lampNotes, calibration.notes()));
         }
 
         /** A square matrix row by row; null for null. */
@@ -379,7 +385,8 @@ public final class SurveyCalibration {
             DispersionSolution solution;
             try {
                 solution = DispersionSolution.of(new DispersionPolynomial(medium, row.getDouble(6), row.getDouble(7),
-                        coefficients, covariance, row.getDouble(12), row.getDouble(13), higher, higherCovariance));
+                        coefficients, covariance, row.getDouble(12), row.getDouble(13), higher, higherCovariance,
+                        row.isNullAt(18) ? Double.NaN : row.getDouble(18)));
             } catch (RuntimeException e) {
                 throw bad(id, "calibration_id", "calibration '" + calibrationId + "' is not a usable polynomial: "
                         + e.getMessage());

@@ -240,6 +240,11 @@ class RowFormTest {
                 spark.createDataFrame(calibrations, Schemas.CALIBRATIONS)).orderBy("id").collectAsList();
         assertEquals(2, applied.size());
         assertEquals(499.0, applied.get(0).getList(3).get(0)); // pixel 0: x = -1
+        // A table stored before the next degree's weight was kept (no higher_degree_weight column)
+        // is applied as if it were null: the same rows (compared as text: they hold NaN sigmas).
+        assertEquals(applied.toString(), SurveyCalibration.apply(spark.createDataFrame(science, Schemas.SCIENCE),
+                spark.createDataFrame(calibrations, Schemas.CALIBRATIONS).drop("higher_degree_weight"))
+                .orderBy("id").collectAsList().toString());
         calibrations.add(calibration("cal-2", 601.0));
         message = SurveyIdentificationTest.failure(() -> SurveyCalibration.apply(spark.createDataFrame(science,
                 Schemas.SCIENCE), spark.createDataFrame(calibrations, Schemas.CALIBRATIONS)).count());
@@ -348,7 +353,7 @@ class RowFormTest {
     private static Row calibration(String id, double a0) {
         return RowFactory.create(id, 4, "air", 1, 1.5, 1.5, new double[] {a0, 1.0}, null, null, null, 0.0, 3.0, 0.01,
                 0.1, 1.0, 5, 0, 6, 5, 5, 1.0, 1.0, 0, new String[] {"Ne I 585.249"}, "test", null, null, null, null,
-                new String[0]);
+                null, new String[0]);
     }
 
     @Test

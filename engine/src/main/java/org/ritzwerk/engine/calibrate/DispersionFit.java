@@ -70,7 +70,11 @@ import org.ritzwerk.medium.Medium;
  * and the true error reached 3.9 stated standard uncertainties before, 3.2 after.) A degree chosen
  * below {@value #USUAL_DEGREE} is widened further, pixel by pixel in effect, to cover what the
  * next degree's fit leaves open between the pairs ({@link #nextDegreeScale}); the factor of both
- * is {@link DispersionSolution#modelSelectionScale()}.
+ * is {@link DispersionSolution#modelSelectionScale()}. From the usual degree up, where that
+ * widening does not apply, the fit keeps the next degree's Akaike weight against the chosen one
+ * ({@link DispersionSolution#nextDegreeWeight()}), computed also when the next degree was not
+ * tried for the choice, and the stated uncertainty follows the unconditional standard error over
+ * the two degrees pixel by pixel where it exceeds the factor's ({@link DispersionSolution}).
  *
  * <p>Immutable and thread-safe.
  */
@@ -314,6 +318,12 @@ public final class DispersionFit {
             double chiNext = Math.max(next.chiSquare, CHI_FLOOR * used);
             nextProbability = DispersionSolution.fTestProbability((chi - chiNext) / (chiNext / (dof - 1)), dof - 1);
         }
+        // The next degree's support against the chosen one, for the unconditional uncertainty between
+        // the pairs (DispersionSolution.wavelengthSigmaAt): when the degree was chosen, the polynomial
+        // kept beyond the range is that next degree, and nextDegreeScale, which covers it already
+        // (at its largest ratio over the range), did not apply.
+        double nextWeight = degree > 0 || pass.degree() < Math.min(maxDegree, USUAL_DEGREE) || beyond == null
+                || beyond != next ? Double.NaN : nextDegreeWeight(chi, next.chiSquare, used, k);
         double[] residual = new double[n];
         double[] sigma = new double[n];
         boolean[] rejected = new boolean[n];
@@ -325,7 +335,31 @@ public final class DispersionFit {
         return new DispersionSolution(centre, half, a, covariance, scale, modelScale, medium, chi, dof, usedLo,
                 usedHi, pixel.clone(), wavelengthNm.clone(), sigma, residual, rejected, criterion,
                 beyond == null ? null : beyond.coefficients, beyond == null ? null : beyond.scaledCovariance(),
-                nextProbability);
+                nextProbability, nextWeight);
+    }
+
+    /**
+     * The Akaike weight of the next degree against the chosen one on the same used pairs,
+     * w = 1 / (1 + exp((AICc_(d+1) - AICc_d) / 2)), with AICc in its form for residuals of unknown
+     * scale (see the class comment; Burnham and Anderson, sec. 2.9 for the weights). Computed
+     * also when the next degree was not tried for the choice (a cubic whose pairs scatter no more
+     * than stated): its support decides how uncertain the choice is, not whether it was allowed.
+     *
+     * @return the weight, 0 to 1; NaN when either criterion is not finite
+     */
+    static double nextDegreeWeight(double chiChosen, double chiNext, int used, int k) {
+        double chosen = aicc(chiChosen, used, k);
+        double next = aicc(chiNext, used, k + 1);
+        double weight = 1 / (1 + Math.exp(0.5 * (next - chosen)));
+        return Double.isFinite(chosen) && Double.isFinite(next) ? weight : Double.NaN;
+    }
+
+    /** AICc for k coefficients and a weighted chi-square over n used pairs (see the class comment). */
+    private static double aicc(double chi, int n, int k) {
+        if (n - k - 1 <= 0) {
+            return Double.NaN;
+        }
+        return n * Math.log(Math.max(chi, CHI_FLOOR * n) / n) + 2 * k + 2.0 * k * (k + 1) / (n - k - 1);
     }
 
     /**

@@ -39,6 +39,28 @@ import org.ritzwerk.medium.Medium;
  * do not determine a higher degree with a degree of freedom to spare, and for stored coefficients
  * without it, only the covariance is used.
  *
+ * <p><b>The choice of degree, between the lines.</b> When the degree d was chosen automatically
+ * (from the usual cubic up, or at the highest degree allowed) and the next degree has some support
+ * without being significant, the lines cannot decide between the two, and the covariance of d
+ * alone states the wavelength as if d were certainly right. The stated uncertainty between the
+ * first and last fitted line is then at least the unconditional standard error over the two
+ * degrees, with Akaike (AICc) weights w_d = 1 - w and w_(d+1) = w ({@link #nextDegreeWeight()}):
+ * <pre>
+ *   u(p) = (1 - w) sigma_d(p) + w sqrt(sigma_(d+1)^2(p) + (lambda_(d+1)(p) - lambda_d(p))^2)
+ * </pre>
+ * (S. T. Buckland, K. P. Burnham and N. H. Augustin, Biometrics 53, 603 (1997); Burnham and
+ * Anderson, Model Selection and Multimodel Inference, 2nd ed., Springer 2002, sec. 4.3: their
+ * [sum_i w_i sqrt(var_i + (theta_i - theta_avg)^2)], as secondary accounts quote it, here with the
+ * chosen polynomial, the estimate reported, in place of the model average theta_avg, so the
+ * wavelengths stay the chosen polynomial's), where sigma_d is this solution's own uncertainty
+ * (after {@link #modelSelectionScale()}, which matches the spread of all degrees tried only on
+ * average over the range) and the next degree's polynomial is the one kept for beyond the range.
+ * Neon exposures with a quartic term of 0.18 nm across 2048 pixels, 40 seeds (refdata's
+ * QuarticDispersionTest): runs without a note on structure had errors up to 4.5 stated
+ * uncertainties, 1.11 RMS, where a cubic was kept that the lines could not tell from a quartic;
+ * now at most 3.6, 1.02 RMS. For an exactly cubic dispersion the share of errors within one
+ * stated uncertainty goes from 77 % to 80 % (68 % would be exact).
+ *
  * <p><b>Data and evaluation.</b> The polynomial as plain data is the api's
  * {@link DispersionPolynomial} ({@link #polynomial()}, {@link #of(DispersionPolynomial)}), and a
  * saved calibration is a {@link CalibrationRecord} ({@link #toRecord}); this class evaluates them
@@ -73,6 +95,8 @@ public final class DispersionSolution {
     private final double[][] higherCovariance;
     /** The F-test's chance that the next degree fits this much better by chance; NaN when not fitted. */
     private final double nextDegreeProbability;
+    /** The Akaike weight of the higher degree (d + 1) against d; NaN when not known. */
+    private final double higherDegreeWeight;
 
     /**
      * A fitted solution; higherCoefficients and higherCovariance (both null when not
@@ -83,18 +107,20 @@ public final class DispersionSolution {
             double covarianceScale, double modelSelectionScale, Medium medium, double chiSquare,
             int degreesOfFreedom, double lowestPixel, double highestPixel, double[] pixel, double[] wavelength,
             double[] sigma, double[] residual, boolean[] rejected, double[] criterion, double[] higherCoefficients,
-            double[][] higherCovariance, double nextDegreeProbability) {
+            double[][] higherCovariance, double nextDegreeProbability, double higherDegreeWeight) {
         this(centre, halfRange, coefficients, covariance, covarianceScale, modelSelectionScale, medium, chiSquare,
                 degreesOfFreedom, lowestPixel, highestPixel, pixel, wavelength, sigma, residual, rejected, criterion,
-                null, higherCoefficients, higherCovariance, nextDegreeProbability);
+                null, higherCoefficients, higherCovariance, nextDegreeProbability, higherDegreeWeight);
     }
 
     private DispersionSolution(double centre, double halfRange, double[] coefficients, double[][] covariance,
             double covarianceScale, double modelSelectionScale, Medium medium, double chiSquare,
             int degreesOfFreedom, double lowestPixel, double highestPixel, double[] pixel, double[] wavelength,
             double[] sigma, double[] residual, boolean[] rejected, double[] criterion, String[] pairFlags,
-            double[] higherCoefficients, double[][] higherCovariance, double nextDegreeProbability) {
+            double[] higherCoefficients, double[][] higherCovariance, double nextDegreeProbability,
+            double higherDegreeWeight) {
         this.nextDegreeProbability = nextDegreeProbability;
+        this.higherDegreeWeight = higherDegreeWeight;
         this.pairFlags = pairFlags;
         this.higherCoefficients = higherCoefficients;
         this.higherCovariance = higherCovariance;
@@ -161,7 +187,8 @@ public final class DispersionSolution {
         return new DispersionSolution(polynomial.centrePixel(), polynomial.halfRange(), coefficients, c, 1, 1,
                 polynomial.medium(), Double.NaN, 0, polynomial.lowestPixel(), polynomial.highestPixel(), new double[0],
                 new double[0], new double[0], new double[0], new boolean[0], new double[0],
-                polynomial.higherDegreeCoefficients(), polynomial.higherDegreeCovariance(), Double.NaN);
+                polynomial.higherDegreeCoefficients(), polynomial.higherDegreeCovariance(), Double.NaN,
+                polynomial.higherDegreeWeight());
     }
 
     /**
@@ -172,7 +199,8 @@ public final class DispersionSolution {
     public DispersionPolynomial polynomial() {
         boolean known = hasCovariance();
         return new DispersionPolynomial(medium, centre, halfRange, coefficients, known ? covariance : null,
-                lowestPixel, highestPixel, known ? higherCoefficients : null, known ? higherCovariance : null);
+                lowestPixel, highestPixel, known ? higherCoefficients : null, known ? higherCovariance : null,
+                known && higherCoefficients != null ? higherDegreeWeight : Double.NaN);
     }
 
     private boolean hasCovariance() {
@@ -197,7 +225,7 @@ public final class DispersionSolution {
         return new DispersionSolution(centre, halfRange, coefficients, covariance, covarianceScale,
                 modelSelectionScale, medium, chiSquare, degreesOfFreedom, lowestPixel, highestPixel, pixel, wavelength,
                 sigma, residual, rejected, criterion, flags.clone(), higherCoefficients, higherCovariance,
-                nextDegreeProbability);
+                nextDegreeProbability, higherDegreeWeight);
     }
 
     /**
@@ -367,19 +395,41 @@ public final class DispersionSolution {
     /**
      * @param pixel a pixel position
      * @return the standard uncertainty of {@link #wavelengthAt(double)} in nm: from the
-     *         coefficients' covariance within the fitted range, and beyond it at least what the
-     *         higher degree's polynomial leaves open (see the class comment); NaN for stored
-     *         coefficients without covariance
+     *         coefficients' covariance within the fitted range, at least the unconditional
+     *         uncertainty of the choice between this degree and the next when the next has a weight
+     *         ({@link #nextDegreeWeight()}), and beyond the range at least what the higher degree's
+     *         polynomial leaves open (see the class comment); NaN for stored coefficients without
+     *         covariance
      */
     public double wavelengthSigmaAt(double pixel) {
         double x = scaled(pixel);
         double variance = PolynomialLeastSquares.quadraticForm(covariance, x);
-        if (higherCoefficients != null && !isWithinFittedRange(pixel)) {
+        boolean within = isWithinFittedRange(pixel);
+        if (higherCoefficients != null && (!within || higherDegreeWeight > 0)) {
             double shift = PolynomialLeastSquares.evaluate(higherCoefficients, x)
                     - PolynomialLeastSquares.evaluate(coefficients, x);
-            variance = Math.max(variance, PolynomialLeastSquares.quadraticForm(higherCovariance, x) + shift * shift);
+            double higher = PolynomialLeastSquares.quadraticForm(higherCovariance, x) + shift * shift;
+            if (!within) {
+                variance = Math.max(variance, higher);
+            } else {
+                // the unconditional standard error over degrees d and d + 1 (see the class comment)
+                double unconditional = (1 - higherDegreeWeight) * Math.sqrt(Math.max(0, variance))
+                        + higherDegreeWeight * Math.sqrt(higher);
+                variance = Math.max(variance, unconditional * unconditional);
+            }
         }
         return Math.sqrt(Math.max(0, variance));
+    }
+
+    /**
+     * @return the Akaike weight of the next degree d + 1 against this degree d on the same used
+     *         pairs, w = exp(-AICc_(d+1) / 2) / (exp(-AICc_d / 2) + exp(-AICc_(d+1) / 2)), 0 to 1:
+     *         how much support the lines give the next degree (see {@link #wavelengthSigmaAt}); NaN
+     *         when not known (a fixed degree, a degree chosen below 2, too few pairs for the next
+     *         degree, stored coefficients without it)
+     */
+    public double nextDegreeWeight() {
+        return higherDegreeWeight;
     }
 
     /**

@@ -36,10 +36,37 @@ public final class CalibrationSweep {
      *                             standard uncertainties
      * @param worstSigmas          the largest error of any accepted run in stated standard uncertainties
      * @param notSolved            a description of every run not solved
+     * @param accepted             for every accepted run: its largest error in pixels, its largest stated
+     *                             standard uncertainty in pixels ({@link Calibration#largestSigmaPixels()}) and
+     *                             how well the other lines check each end ({@link Calibration#endConfirmationPixels})
      */
     public record Outcome(int runs, int solved, int refused, int imprecise, int wrong, double worstSolvedError,
             double worstImpreciseSigmas, double within1Sigma, double within2Sigma, int beyond3Sigma,
-            double worstSigmas, List<String> notSolved) {
+            double worstSigmas, List<String> notSolved, List<double[]> accepted) {
+
+        /**
+         * What a required precision ({@link Calibrator#withRequiredPrecision}) would have made of the
+         * same runs: it only checks a finished calibration (largest stated uncertainty at most q, each
+         * end checked by the others to 6 q), so it refuses accepted runs and changes no solution.
+         *
+         * @param q the required precision, pixels
+         * @return solved, refused, imprecise, wrong, then the imprecise and the solved runs it refused
+         */
+        public int[] underRequiredPrecision(double q) {
+            int[] tally = {0, refused, 0, 0, 0, 0};
+            for (double[] run : accepted) {
+                boolean refuse = !(run[1] <= q) || !(run[2] <= 6 * q) || !(run[3] <= 6 * q);
+                int kind = run[0] < 0.1 ? 0 : run[0] < 1 ? 2 : 3;
+                if (refuse) {
+                    tally[1]++;
+                    tally[4] += kind == 2 ? 1 : 0;
+                    tally[5] += kind == 0 ? 1 : 0;
+                } else {
+                    tally[kind]++;
+                }
+            }
+            return tally;
+        }
 
         @Override
         public String toString() {
@@ -112,6 +139,7 @@ public final class CalibrationSweep {
         long within2 = 0;
         int beyond3 = 0;
         List<String> notSolved = new ArrayList<>();
+        List<double[]> accepted = new ArrayList<>();
         int planned = runs;
         for (long seed = firstSeed; seed < firstSeed + planned; seed++) {
             LampExposures.Exposure exposure = exposureOf.apply(seed);
@@ -136,6 +164,8 @@ public final class CalibrationSweep {
                 continue;
             }
             double error = largestError(exposure, calibration.solution(), calibration);
+            accepted.add(new double[] {error, calibration.largestSigmaPixels(),
+                calibration.endConfirmationPixels(false), calibration.endConfirmationPixels(true)});
             double[] z = errorsInSigmas(exposure, calibration.solution(), calibration);
             double runWorst = 0;
             for (double v : z) {
@@ -164,7 +194,7 @@ public final class CalibrationSweep {
         return new Outcome(runs, solved, refused, imprecise, wrong, worst, worstSigmas,
                 points == 0 ? Double.NaN : (double) within1 / points,
                 points == 0 ? Double.NaN : (double) within2 / points,
-                beyond3, worstAnySigmas, notSolved);
+                beyond3, worstAnySigmas, notSolved, accepted);
     }
 
     /** The largest error in pixels between the lowest and highest pixel of the fitted pairs. */
@@ -217,6 +247,22 @@ public final class CalibrationSweep {
         boolean wrongLamp = args.length > 3 && args[3].equals("wrong");
         Outcome outcome = run(seed, runs, curvature, Calibrator.defaults(), wrongLamp);
         System.out.println(outcome);
+        for (double q : new double[] {0.1, 0.075, 0.05}) {
+            int[] t = outcome.underRequiredPrecision(q);
+            System.out.printf(Locale.ROOT, "required precision %s px: %d solved, %d refused, %d imprecise, %d wrong;"
+                    + " it refuses %d imprecise and %d solved runs%n", q, t[0], t[1], t[2], t[3], t[4], t[5]);
+        }
+        List<Double> impreciseSigmas = new ArrayList<>();
+        for (double[] run : outcome.accepted()) {
+            if (run[0] >= 0.1 && run[0] < 1) {
+                impreciseSigmas.add(run[1]);
+            }
+        }
+        java.util.Collections.sort(impreciseSigmas);
+        long atLeast = impreciseSigmas.stream().filter(v -> v >= 0.05).count();
+        System.out.printf(Locale.ROOT, "imprecise runs stating at least 0.05 px where worst: %d of %d"
+                + " (median %.3f px)%n", atLeast, impreciseSigmas.size(), impreciseSigmas.isEmpty() ? Double.NaN
+                        : impreciseSigmas.get(impreciseSigmas.size() / 2));
         System.out.printf(Locale.ROOT, "%.1f s%n", (System.nanoTime() - t0) * 1e-9);
     }
 }

@@ -299,7 +299,10 @@ class CalibrationSweepTest {
      * refusal there instead (seeds 1-400: 204 solved, 193 refused, 3 imprecise at 0.12 to 0.16
      * pixel, none wrong; without the requirement 328, 21, 51 and 0). With the end check and the
      * next degree's widening of a quadratic or straight line (DispersionFit): 188 solved, 210
-     * refused, 2 imprecise, none wrong.
+     * refused, 2 imprecise, none wrong. With the automatic degree up to 5 (328, 25, 47 and 0
+     * without the requirement): 178, 220, 2 and 0; with the next degree's Akaike weight between
+     * the lines (DispersionSolution.nextDegreeWeight): 156, 244, 0 and 0, all 47 imprecise runs
+     * stating at least 0.05 pixel (median 0.15). CalibrationSweep's main prints these counts.
      */
     @Test
     void aRequiredPrecisionRefusesWhatTheDataCannotGive() {
@@ -322,10 +325,11 @@ class CalibrationSweepTest {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6,
                 Calibrator.defaults().withRequiredPrecision(0.05));
         assertEquals(0, outcome.wrong() + outcome.imprecise(), outcome.toString());
-        // 14 solved (16 before the end check, which also refuses seed 1: its last line is checked by
+        // 12 solved (16 before the end check, which also refuses seed 1: its last line is checked by
         // the others only to 0.63 pixel; 15 before a quadratic's stated uncertainty took in what
-        // the next degree leaves open, which states seed 24's right quadratic at 0.17 pixel).
-        assertTrue(outcome.solved() >= 14, outcome.toString());
+        // the next degree leaves open, which states seed 24's right quadratic at 0.17 pixel; 14
+        // before a cubic's took in the next degree's Akaike weight between the lines).
+        assertTrue(outcome.solved() >= 12, outcome.toString());
     }
 
     @Test

@@ -35,7 +35,10 @@ import org.ritzwerk.refdata.DataContext;
  * a reduced chi-square of about 1.9, the Birge factor widening every uncertainty alike: errors of
  * 2.3 stated uncertainties RMS, 29 % within one, up to 5.2, with no note; c4 = 3e-14 gave 2.8 RMS,
  * and 1e-13 was refused. A degree held at 3 by the user now carries a note that the residuals
- * show structure the degree does not follow.
+ * show structure the degree does not follow. Where the lines cannot decide between the degree
+ * chosen and the next, the stated uncertainty between them covers that choice
+ * ({@code DispersionSolution.nextDegreeWeight}). {@link QuarticCoverageProbe} prints the same
+ * figures for any number of seeds.
  */
 class QuarticDispersionTest {
 
@@ -48,10 +51,11 @@ class QuarticDispersionTest {
      * structured residuals (a run with it says its uncertainty may be too small), the same over
      * all runs, the degrees chosen and how many runs carried the note.
      */
-    private record Coverage(double rmsZ, double within1, double rmsZAll, int[] degrees, int structured) {
+    private record Coverage(double rmsZ, double within1, double rmsZAll, int[] degrees, int structured,
+            double maxZ, double within2) {
     }
 
-    private static double[] counts(double c4, long seed) {
+    static double[] counts(double c4, long seed) {
         double[] c = {580, 0.07, 4e-6, -1e-9, c4};
         return Scene.builder(PixelGrid.dispersion(c, PIXELS)).medium(Medium.air())
                 .instrument(Instrument.ofFwhm(0.25)).temperature(300).peakCounts(30_000)
@@ -59,7 +63,7 @@ class QuarticDispersionTest {
                 .noise(5, seed).build().render(1).counts();
     }
 
-    private static double truth(double c4, double p) {
+    static double truth(double c4, double p) {
         return 580 + p * (0.07 + p * (4e-6 + p * (-1e-9 + p * c4)));
     }
 
@@ -70,6 +74,8 @@ class QuarticDispersionTest {
         double sumAll = 0;
         int pointsAll = 0;
         int structured = 0;
+        double maxZ = 0;
+        int within2 = 0;
         int[] degrees = new int[10];
         for (long seed = 1; seed <= seeds; seed++) {
             Calibration calibration = calibrator.calibrate(CalibrationProblem.builder(counts(c4, seed))
@@ -89,27 +95,36 @@ class QuarticDispersionTest {
                 if (!noted) {
                     sum += z * z;
                     within += Math.abs(z) <= 1 ? 1 : 0;
+                    within2 += Math.abs(z) <= 2 ? 1 : 0;
+                    maxZ = Math.max(maxZ, Math.abs(z));
                     points++;
                 }
             }
         }
         return new Coverage(Math.sqrt(sum / points), (double) within / points, Math.sqrt(sumAll / pointsAll), degrees,
-                structured);
+                structured, maxZ, (double) within2 / points);
     }
 
     private static String describe(Coverage c) {
-        return String.format(Locale.ROOT, "without the note: rms error/sigma %.2f, %.0f %% within 1 sigma; all runs:"
-                + " rms %.2f; degrees %s, %d noted", c.rmsZ(), 100 * c.within1(), c.rmsZAll(),
-                java.util.Arrays.toString(c.degrees()), c.structured());
+        return String.format(Locale.ROOT, "without the note: rms error/sigma %.2f, %.0f %% within 1 sigma, %.0f %%"
+                + " within 2, largest %.2f; all runs: rms %.2f; degrees %s, %d noted", c.rmsZ(), 100 * c.within1(),
+                100 * c.within2(), c.maxZ(), c.rmsZAll(), java.util.Arrays.toString(c.degrees()), c.structured());
     }
 
     @Test
     void aQuarticDispersionIsFittedWithAnUncertaintyThatHoldsOrANote() {
-        Coverage c = coverage(1e-14, Calibrator.defaults(), 20);
-        // before: 2.3 RMS, 29 % within one, degree 3 in every run and no note; now 1.2 and 58 %: a
-        // cubic kept where the quartic is not yet significant still under-covers a little
-        assertTrue(c.rmsZ() <= 1.3 && c.within1() >= 0.55, describe(c));
-        assertTrue(c.degrees()[4] >= 5, "the quartic is taken where the lines show it: " + describe(c));
+        Coverage c = coverage(1e-14, Calibrator.defaults(), 40);
+        // Honest standard uncertainties leave errors of 1 RMS, 68 % within one and almost none
+        // beyond 4 among these ~1100 points (normal errors; common practice). Before degrees above 3
+        // were tried: 2.3 RMS, 29 % within one, degree 3 in every run and no note. Then, with a
+        // cubic kept where the quartic is not yet significant stating its uncertainty as if the
+        // cubic were certain: 1.11 RMS without the note, 1.19 over all runs, up to 4.49 (seed 12,
+        // pixel 400, whose cubic scattered less than stated so the quartic was not even weighed).
+        // Now the choice between the degree and the next one is in the stated uncertainty
+        // (Buckland, Burnham and Augustin 1997): 1.02, 66 %, 1.00 over all runs, at most 3.6.
+        assertTrue(c.rmsZ() <= 1.08 && c.within1() >= 0.6 && c.maxZ() <= 4, describe(c));
+        assertTrue(c.rmsZAll() <= 1.1, describe(c));
+        assertTrue(c.degrees()[4] >= 10, "the quartic is taken where the lines show it: " + describe(c));
     }
 
     @Test
@@ -122,9 +137,14 @@ class QuarticDispersionTest {
 
     @Test
     void aCubicDispersionStillTakesACubicMostly() {
-        Coverage c = coverage(0, Calibrator.defaults(), 20);
-        assertTrue(c.rmsZ() <= 1.3 && c.within1() >= 0.6, describe(c));
-        assertTrue(c.degrees()[3] >= 14, describe(c));
+        Coverage c = coverage(0, Calibrator.defaults(), 40);
+        // Where the cubic is right the uncertainty holds and is not much more cautious than that:
+        // 68 % within one and 95 % within two for normal errors (common practice); 77 % and 97 %
+        // before the degree choice entered the stated uncertainty, 80 % and 98 % now (0.88 and
+        // 0.83 RMS). 88 % within one would be a standard uncertainty stated 1.4 times too large.
+        assertTrue(c.rmsZ() <= 1.15 && c.within1() >= 0.6 && c.within2() >= 0.93, describe(c));
+        assertTrue(c.within1() <= 0.88 && c.rmsZ() >= 0.7, "not much more cautious than honest: " + describe(c));
+        assertTrue(c.degrees()[3] >= 28, describe(c));
         assertEquals(0, c.structured(), describe(c));
     }
 
