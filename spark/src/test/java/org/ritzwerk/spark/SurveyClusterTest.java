@@ -70,18 +70,24 @@ class SurveyClusterTest {
         }
     }
 
-    /**
-     * Each of eight tasks reports its executor's id and its JVM's process id (each task waits
-     * 200 ms, so that one executor cannot take all eight before the other starts): two executors,
-     * two processes, neither the driver's JVM, both among the worker's child processes.
-     */
+    /** Two executors, two processes, neither the driver's JVM, both among the worker's child processes. */
     @Test
     @Order(1)
     void tasksRunInTwoExecutorProcessesApartFromTheDriver() {
         SparkSession spark = cluster.session();
         assertEquals(cluster.url(), spark.sparkContext().master());
-        SparkExecutorInfo[] executors = spark.sparkContext().statusTracker().getExecutorInfos();
-        assertEquals(EXECUTORS + 1, executors.length, "the driver and " + EXECUTORS + " executors");
+        assertSeparateProcesses(spark, EXECUTORS, cluster.pids());
+    }
+
+    /**
+     * Runs eight tasks, each reporting its executor's id and its JVM's process id (each task waits
+     * 200 ms, so that one executor cannot take all eight before the other starts), and asserts
+     * that the session has {@code executors} executors besides the driver, that the tasks ran on
+     * that many, in that many processes, none of them this JVM, all among {@code childPids} (the
+     * processes the test started). {@link LocalSparkIsNotAClusterTest} shows it refuses local mode.
+     */
+    static void assertSeparateProcesses(SparkSession spark, int executors, List<Long> childPids) {
+        SparkExecutorInfo[] infos = spark.sparkContext().statusTracker().getExecutorInfos();
         List<String> seen = JavaSparkContext.fromSparkContext(spark.sparkContext())
                 .parallelize(List.of(0, 1, 2, 3, 4, 5, 6, 7), 8)
                 .map(k -> {
@@ -89,18 +95,18 @@ class SurveyClusterTest {
                     return SparkEnv.get().executorId() + " " + ProcessHandle.current().pid();
                 })
                 .collect();
+        assertEquals(executors + 1, infos.length, "the driver and " + executors + " executors");
         Set<String> executorIds = new TreeSet<>();
         Set<Long> pids = new TreeSet<>();
         for (String s : seen) {
             executorIds.add(s.split(" ")[0]);
             pids.add(Long.parseLong(s.split(" ")[1]));
         }
-        assertEquals(EXECUTORS, executorIds.size(), "executors that ran tasks: " + seen);
+        assertEquals(executors, executorIds.size(), "executors that ran tasks: " + seen);
         assertFalse(executorIds.contains("driver"), seen.toString());
-        assertEquals(EXECUTORS, pids.size(), "processes that ran tasks: " + seen);
+        assertEquals(executors, pids.size(), "processes that ran tasks: " + seen);
         assertFalse(pids.contains(ProcessHandle.current().pid()), "a task ran in the driver's JVM: " + seen);
-        assertTrue(cluster.pids().containsAll(pids), "the executors are the worker's children " + cluster.pids()
-                + ": " + seen);
+        assertTrue(childPids.containsAll(pids), "the executors are the worker's children " + childPids + ": " + seen);
     }
 
     @Test
