@@ -37,7 +37,15 @@ class SurveyCalibrationTest {
 
     @Test
     void calibrationsAndTheirApplicationAreTheLibrarysBitForBit(@TempDir Path folder) throws Exception {
-        SparkSession spark = LocalSpark.session();
+        calibrationsAndTheirApplicationAreTheLibrarysBitForBit(LocalSpark.session(), folder);
+    }
+
+    /**
+     * The check of the test above in a session of any deployment ({@link SurveyClusterTest} runs it
+     * too); the saved calibration files go to {@code folder}.
+     */
+    static void calibrationsAndTheirApplicationAreTheLibrarysBitForBit(SparkSession spark, Path folder)
+            throws Exception {
         DataContext data = DataContext.builtIn();
         Map<String, double[]> exposures = new HashMap<>();
         exposures.put("lamp-1", Fixtures.neonExposure(data.lampLines(Species.parse("Ne I")), 1.0, 9L));

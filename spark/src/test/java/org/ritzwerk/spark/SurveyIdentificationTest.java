@@ -91,7 +91,11 @@ class SurveyIdentificationTest {
 
     @Test
     void fixedWindowGivesTheLibrarysNumbersBitForBit() {
-        SparkSession spark = LocalSpark.session();
+        fixedWindowGivesTheLibrarysNumbersBitForBit(LocalSpark.session());
+    }
+
+    /** The check of the test above in a session of any deployment ({@link SurveyClusterTest} runs it too). */
+    static void fixedWindowGivesTheLibrarysNumbersBitForBit(SparkSession spark) {
         List<Fixtures.PeakListData> lists = Fixtures.peakLists(SPECIES, 12, 20, 3, 18L);
         IdentificationParameters parameters = IdentificationParameters.inWindow(SPECIES, List.of(), 360, 710)
                 .withVelocitySearch(100e3);
@@ -112,7 +116,11 @@ class SurveyIdentificationTest {
 
     @Test
     void windowPerSpectrumIsTheIdentifyCommandsComposition() {
-        SparkSession spark = LocalSpark.session();
+        windowPerSpectrumIsTheIdentifyCommandsComposition(LocalSpark.session());
+    }
+
+    /** The check of the test above in a session of any deployment ({@link SurveyClusterTest} runs it too). */
+    static void windowPerSpectrumIsTheIdentifyCommandsComposition(SparkSession spark) {
         List<Fixtures.PeakListData> lists = Fixtures.peakLists(HYDROGEN, 4, 8, 1, 19L);
         IdentificationParameters parameters = IdentificationParameters.perSpectrumWindow(HYDROGEN, List.of())
                 .withVelocitySearch(100e3).withPlasmaEstimate(0.05);

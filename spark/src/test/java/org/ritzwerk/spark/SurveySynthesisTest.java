@@ -81,7 +81,11 @@ class SurveySynthesisTest {
 
     @Test
     void spectraAndTruthAreTheLibrarysBitForBit() {
-        SparkSession spark = LocalSpark.session();
+        spectraAndTruthAreTheLibrarysBitForBit(LocalSpark.session());
+    }
+
+    /** The check of the test above in a session of any deployment ({@link SurveyClusterTest} runs it too). */
+    static void spectraAndTruthAreTheLibrarysBitForBit(SparkSession spark) {
         List<Row> scenes = new ArrayList<>();
         scenes.add(RowFactory.create("s0", new String[] {"H I"}, null, 9000.0, null, 0.0, 8000.0, 1L));
         scenes.add(RowFactory.create("s1", new String[] {"H I", "D I"}, new double[] {1, 0.3}, 12000.0, 1e21, 15e3,
@@ -202,7 +206,15 @@ class SurveySynthesisTest {
     @Test
     void lampScenesOnADispersionGridAreTheLibrarysBitForBit(@org.junit.jupiter.api.io.TempDir java.nio.file.Path folder)
             throws java.io.IOException {
-        SparkSession spark = LocalSpark.session();
+        lampScenesOnADispersionGridAreTheLibrarysBitForBit(LocalSpark.session(), folder);
+    }
+
+    /**
+     * The check of the test above in a session of any deployment ({@link SurveyClusterTest} runs it
+     * too); its invented line list goes to {@code folder}.
+     */
+    static void lampScenesOnADispersionGridAreTheLibrarysBitForBit(SparkSession spark, java.nio.file.Path folder)
+            throws java.io.IOException {
         List<Row> scenes = List.of(
                 RowFactory.create("lamp-1", new String[0], null, 400.0, null, 0.0, 4000.0, 1L),
                 RowFactory.create("lamp-2", new String[0], null, 600.0, null, 0.0, 2500.0, 2L),
