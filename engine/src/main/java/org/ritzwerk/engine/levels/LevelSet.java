@@ -204,9 +204,10 @@ public final class LevelSet {
 
     /**
      * @param i a level, 0 to size() - 1
-     * @return the standard uncertainty of {@link #lifetimeSeconds} in s, where published dipole elements
-     *         decide every decay channel (alkali atoms: {@code AlkaliAtom.radiativeLifetimeUncertainty});
-     *         empty where it is not estimated
+     * @return the standard uncertainty of {@link #lifetimeSeconds} in s (alkali atoms:
+     *         {@code AlkaliAtom.radiativeLifetimeUncertainty}: published elements' stated uncertainties, and for
+     *         computed elements the spread of two models where the atom has a second one); empty where it is not
+     *         estimated
      */
     public OptionalDouble lifetimeUncertaintySeconds(int i) {
         return Double.isFinite(lifetimeSigma[i]) ? OptionalDouble.of(lifetimeSigma[i]) : OptionalDouble.empty();
