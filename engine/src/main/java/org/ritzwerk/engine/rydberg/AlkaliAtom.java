@@ -90,8 +90,9 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * stated uncertainties), and where computed elements do, with a second model set ({@link #withModelSpread};
  * the data context's atoms have one), the spread between the two published methods of computing them (the
  * Coulomb approximation and the model potential with the core-polarized operator): a model-spread estimate
- * ({@link #reducedDipoleUncertainty}, {@link #einsteinAUncertainty}, {@link #radiativeLifetimeUncertainty});
- * black-body rates and effective lifetimes have none (not estimated).
+ * ({@link #reducedDipoleUncertainty}, {@link #einsteinAUncertainty}, {@link #radiativeLifetimeUncertainty},
+ * and {@link #effectiveLifetimeUncertainty} for the lifetime with black-body radiation); a black-body
+ * rate alone has none (not estimated).
  *
  * <p><b>Accuracy</b> (see the tests): levels as good as the measured values and the fits (the
  * fits meet the measured levels within 0.1 cm^-1 from valid-from-n on); Rydberg-Rydberg dipole
@@ -1371,6 +1372,56 @@ public final class AlkaliAtom {
     public double effectiveLifetime(State state, double temperatureK) {
         double blackBody = blackbodyRate(state, temperatureK);     // checks the temperature first
         return 1 / (spontaneousRate(state) + blackBody);
+    }
+
+    /**
+     * The standard uncertainty of {@link #effectiveLifetime}, made as for {@link #radiativeLifetimeUncertainty}
+     * with the black-body channels added to the spontaneous ones: {@code tau^2 sum u(R_i)} over the channels
+     * published elements decide (u(R) = 2 R u(d) / |d| for a rate R proportional to |d|^2), fully correlated,
+     * and in quadrature the model spread {@code |tau - tau'|} of the second model's effective lifetime
+     * ({@link #withModelSpread}). The Planck occupation and the temperature are taken as exact; black-body
+     * photoionisation, which {@link #effectiveLifetime} leaves out, is not counted in either. At 0 K it is
+     * {@link #radiativeLifetimeUncertainty}. Costs the second model's black-body channels too (n' up to 2n + 10).
+     *
+     * @param state        a state above the ground level
+     * @param temperatureK the radiation temperature, K (as {@link #blackbodyChannels})
+     * @return u(tau_eff) in seconds, or empty when a channel's element is computed and the atom has no second
+     *         model (not estimated)
+     * @throws IllegalArgumentException for a temperature out of range, or a state without a decay channel
+     * @throws RydbergException         when a level on the way is refused
+     */
+    public OptionalDouble effectiveLifetimeUncertainty(State state, double temperatureK) {
+        Objects.requireNonNull(state, "state");
+        List<DecayChannel> channels = new ArrayList<>(blackbodyChannels(state, temperatureK)); // checks T first
+        AlkaliAtom second = secondModel();
+        if (second == null && published.keySet().stream().noneMatch(pair -> pair.contains(state))) {
+            return OptionalDouble.empty();
+        }
+        channels.addAll(spontaneousChannels(state));
+        double rate = 0;
+        double publishedRateUncertainty = 0;
+        boolean computed = false;
+        for (DecayChannel c : channels) {
+            if (c.ratePerSecond() == 0) {
+                continue;
+            }
+            rate += c.ratePerSecond();
+            PublishedDipole given = published.get(pair(c.from(), c.to()));
+            if (given == null) {
+                computed = true;
+            } else {
+                publishedRateUncertainty += 2 * c.ratePerSecond() * given.uncertaintyBohr() / given.reducedBohr();
+            }
+        }
+        double tau = lifetime(state, rate);
+        double fromPublished = tau * tau * publishedRateUncertainty;
+        if (!computed) {
+            return OptionalDouble.of(fromPublished);
+        }
+        if (second == null) {
+            return OptionalDouble.empty();
+        }
+        return OptionalDouble.of(Math.hypot(fromPublished, tau - second.effectiveLifetime(state, temperatureK)));
     }
 
     @Override
