@@ -74,7 +74,8 @@ final class LevelsCommand implements Callable<Integer> {
     @Option(names = "--temperature", paramLabel = "K",
             description = "Alkali atoms with --lifetimes: also the effective lifetime with black-body radiation at "
                     + "this temperature, 0 (no black-body radiation: the spontaneous lifetime) to below 1e5 K "
-                    + "(bound states only; photoionisation left out).")
+                    + "(bound states only; photoionisation left out), with its uncertainty 'u at T s' made as "
+                    + "'u lifetime s'.")
     Double temperature;
 
     @Option(names = "--hyperfine",
@@ -198,6 +199,9 @@ final class LevelsCommand implements Callable<Integer> {
             }
             if (temperature != null) {
                 columns.add(Table.Column.number("effective_lifetime_s", "at T s", "%.5e"));
+                if (lifetimeSigmas) {
+                    columns.add(Table.Column.number("uncertainty_effective_lifetime_s", "u at T s", "%.2g"));
+                }
             }
         }
         Table table = new Table(columns, spec.commandLine().getOut(), format);
@@ -233,6 +237,9 @@ final class LevelsCommand implements Callable<Integer> {
                             }
                             if (temperature != null) {
                                 row.add(boxed(part.effectiveLifetimeSeconds(i)));
+                                if (lifetimeSigmas) {
+                                    row.add(boxed(part.effectiveLifetimeUncertaintySeconds(i)));
+                                }
                             }
                         }
                         table.add(row.toArray());

@@ -176,6 +176,9 @@ class LevelsAndLinesCommandTest {
         assertEquals(0, levels.code(), levels.err());
         JsonNode six = new JsonMapper().readTree(levels.out().lines().reduce((a, b) -> b).orElseThrow());
         assertEquals(six.get("lifetime_s").asDouble(), six.get("effective_lifetime_s").asDouble(), six.toString());
+        // and its uncertainty is the spontaneous one (the model spread: AlkaliAtom.effectiveLifetimeUncertainty)
+        assertEquals(six.get("uncertainty_lifetime_s").asDouble(), six.get("uncertainty_effective_lifetime_s")
+                .asDouble(), 1e-6 * six.get("lifetime_s").asDouble(), six.toString());
         CliTest.Run cold = CliTest.run("levels", "--species", "Rb-87 I", "--lifetimes", "--temperature", "-1");
         assertEquals(2, cold.code());
         assertTrue(cold.err().contains("a temperature from 0 (no black-body radiation) to below 1e5 K"), cold.err());
