@@ -157,9 +157,9 @@ final class AlkaliTables {
         }
         if (!missing.isEmpty()) {
             err.println("note: " + String.join(", ", missing) + ": not estimated ('-', null in JSON); a dipole "
-                    + "element, its A and a lifetime carry one only where published elements decide them (the first p "
-                    + "levels of Li, Na, K, Rb and Cs; Cs 5d and 7s), not where the Coulomb approximation computes "
-                    + "them");
+                    + "element, its A and a lifetime carry one where published elements decide them, and where "
+                    + "computed elements do only with a second model to compare (the model potential of Li, Na, K, Rb "
+                    + "and Cs); u Hz needs stated uncertainties of both levels");
             err.flush();
         }
         edgeNote(atom, err, upper, lower);

@@ -61,7 +61,10 @@ final class LevelsCommand implements Callable<Integer> {
     @Option(names = "--lifetimes",
             description = "Add each level's radiative lifetime from its E1 decays: null for 1s; for 2s1/2 of "
                     + "one-electron ions, which has no E1 decay, its two-photon and magnetic-dipole decays to 1s "
-                    + "(0.1216 s in H); other M1, E2 and two-photon decays are left out.")
+                    + "(0.1216 s in H); other M1, E2 and two-photon decays are left out. Alkali atoms also get "
+                    + "'u lifetime s': the published dipole elements' uncertainty and, for computed elements, the "
+                    + "spread between the Coulomb approximation and the model potential (a model-spread estimate; "
+                    + "about 6 to 8 % for s and d, 22 % for Rydberg p states).")
     boolean lifetimes;
 
     @Option(names = "--l-max", paramLabel = "L", defaultValue = "3",
@@ -71,7 +74,8 @@ final class LevelsCommand implements Callable<Integer> {
     @Option(names = "--temperature", paramLabel = "K",
             description = "Alkali atoms with --lifetimes: also the effective lifetime with black-body radiation at "
                     + "this temperature, 0 (no black-body radiation: the spontaneous lifetime) to below 1e5 K "
-                    + "(bound states only; photoionisation left out).")
+                    + "(bound states only; photoionisation left out), with its uncertainty 'u at T s' made as "
+                    + "'u lifetime s'.")
     Double temperature;
 
     @Option(names = "--hyperfine",
@@ -186,7 +190,7 @@ final class LevelsCommand implements Callable<Integer> {
             query = query.withBlackBodyTemperature(temperature);
         }
         LevelSets.noteLevelsWithoutLines(levelSets.levels(), spec.commandLine().getErr());
-        // alkali lifetimes decided by published dipole elements carry an uncertainty (first p levels, ...)
+        // alkali lifetimes carry an uncertainty: published elements' and, for computed ones, the model spread
         boolean lifetimeSigmas = lifetimes && alkali;
         if (lifetimes) {
             columns.add(Table.Column.number("lifetime_s", "lifetime s", "%.5e"));
@@ -195,6 +199,9 @@ final class LevelsCommand implements Callable<Integer> {
             }
             if (temperature != null) {
                 columns.add(Table.Column.number("effective_lifetime_s", "at T s", "%.5e"));
+                if (lifetimeSigmas) {
+                    columns.add(Table.Column.number("uncertainty_effective_lifetime_s", "u at T s", "%.2g"));
+                }
             }
         }
         Table table = new Table(columns, spec.commandLine().getOut(), format);
@@ -230,6 +237,9 @@ final class LevelsCommand implements Callable<Integer> {
                             }
                             if (temperature != null) {
                                 row.add(boxed(part.effectiveLifetimeSeconds(i)));
+                                if (lifetimeSigmas) {
+                                    row.add(boxed(part.effectiveLifetimeUncertaintySeconds(i)));
+                                }
                             }
                         }
                         table.add(row.toArray());
@@ -271,8 +281,9 @@ final class LevelsCommand implements Callable<Integer> {
         });
         lifetimeNotEstimated.forEach((species, count) -> spec.commandLine().getErr().println("note: "
                 + species.notation() + ": u lifetime s is not estimated ('-', null in JSON) for " + count + " level(s):"
-                + " a lifetime carries one only where published dipole elements decide every decay channel (the first"
-                + " p levels; Cs 5d and 7s), not where the Coulomb approximation computes them"));
+                + " a lifetime carries one where published dipole elements decide its decay channels, and where"
+                + " computed elements do only with a second model to compare (the model potential of Li, Na, K, Rb"
+                + " and Cs); README, Accuracy, says how it is made"));
         unsplit.forEach((species, labels) -> spec.commandLine().getErr().println("note: " + species.notation()
                 + ": no hyperfine constants for " + labels.size() + " level(s), listed unsplit (F -): "
                 + String.join(", ", labels.subList(0, Math.min(8, labels.size()))) + (labels.size() > 8 ? ", ..." : "")

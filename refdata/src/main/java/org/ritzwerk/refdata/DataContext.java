@@ -52,7 +52,9 @@ import org.ritzwerk.refdata.internal.RydbergData;
  * ({@link QuantumDefectFiles#rydbergPerCm(double)}). The atoms use the Coulomb approximation,
  * except for the low-lying pairs of states with a published dipole element
  * ({@link #alkaliDipoles()}; {@link AlkaliAtom#withPublishedDipoles}), whose element is the
- * published one;
+ * published one; the element's built-in model potential is their second model
+ * ({@link AlkaliAtom#withModelSpread}), whose spread states the uncertainty of computed dipole elements,
+ * rates and lifetimes;
  * {@link #modelPotential(Species)} gives the built-in core potential for
  * {@link AlkaliAtom#withModelPotential}.</li>
  * <li><b>Level lists</b> ({@link #levelList(Species)}, {@link #levelSpecies()}): the
@@ -297,8 +299,11 @@ public final class DataContext {
         measured = withOwnLevels(listing, defects.levelsId().orElse(null), species, measured);
         double rydberg = QuantumDefectFiles.rydbergPerCm(isotope(species).atomicMass());
         AlkaliAtom atom = AlkaliAtom.of(defects.withRydbergPerCm(rydberg), measured);
-        // published elements of low-lying pairs replace the computed ones (AlkaliDipoles)
-        return atom.withPublishedDipoles(alkaliDipoles().elements(atom, species));
+        // published elements of low-lying pairs replace the computed ones (AlkaliDipoles); the second model,
+        // whose spread states computed elements' uncertainty (AlkaliAtom.withModelSpread), is the element's
+        // model potential (all built-in alkali elements have one; another element gets none)
+        ModelPotential potential = RydbergData.potentials().get(species.z());
+        return atom.withPublishedDipoles(alkaliDipoles().elements(atom, species)).withModelSpread(potential);
     }
 
     /**

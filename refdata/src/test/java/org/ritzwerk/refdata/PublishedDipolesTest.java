@@ -106,10 +106,12 @@ class PublishedDipolesTest {
         // added as fully correlated: 6 % of the lifetime (934 +- 56 ns).
         assertEquals(0.06 * lifetimeNs("Cs-133 I", "5d3/2"), lifetimeUncertaintyNs("Cs-133 I", "5d3/2"),
                 0.002 * lifetimeNs("Cs-133 I", "5d3/2"));
-        // Computed channels (Rb 6p decays to 6s and 4d by the Coulomb approximation; Rydberg states): none.
-        assertTrue(atom("Rb-87 I").radiativeLifetimeUncertainty(State.parse("6p3/2")).isEmpty());
-        assertTrue(atom("Rb-87 I").radiativeLifetimeUncertainty(State.parse("40d5/2")).isEmpty());
-        assertTrue(atom("Rb-87 I").einsteinAUncertainty(State.parse("6p3/2"), State.parse("6s1/2")).isEmpty());
+        // Computed channels (Rb 6p decays to 6s and 4d by the Coulomb approximation; Rydberg states): none from
+        // the published elements alone; the data context's atoms add the model spread (LifetimeModelSpreadTest).
+        AlkaliAtom alone = atom("Rb-87 I").withModelSpread(null);
+        assertTrue(alone.radiativeLifetimeUncertainty(State.parse("6p3/2")).isEmpty());
+        assertTrue(alone.radiativeLifetimeUncertainty(State.parse("40d5/2")).isEmpty());
+        assertTrue(alone.einsteinAUncertainty(State.parse("6p3/2"), State.parse("6s1/2")).isEmpty());
     }
 
     @Test
@@ -261,7 +263,8 @@ class PublishedDipolesTest {
      */
     @Test
     void ratesAndLifetimesCarryTheUncertaintyOfThePublishedElementsThatDecideThem() {
-        AlkaliAtom bare = atom("Rb-87 I").withPublishedDipoles(List.of());
+        // without the second model of the data context's atoms, so that only published elements state one
+        AlkaliAtom bare = atom("Rb-87 I").withPublishedDipoles(List.of()).withModelSpread(null);
         State s6 = State.of(6, 0, 1); // two channels, to 5p1/2 and 5p3/2
         State p1 = State.of(5, 1, 1);
         State p3 = State.of(5, 1, 3);
@@ -283,7 +286,8 @@ class PublishedDipolesTest {
         double finite = Math.abs(moved1.radiativeLifetime(s6) - tau) + Math.abs(moved3.radiativeLifetime(s6) - tau);
         double stated = atom.radiativeLifetimeUncertainty(s6).orElseThrow();
         assertEquals(finite, stated, 1e-3 * stated);
-        // a channel with a computed element leaves the lifetime without one; computed elements have none
+        // without a second model, a channel with a computed element leaves the lifetime without one, and computed
+        // elements have none
         AlkaliAtom half = bare.withPublishedDipoles(List.of(new PublishedDipole(p1, s6, d1, u1, "test value")));
         assertEquals(OptionalDouble.empty(), half.radiativeLifetimeUncertainty(s6));
         assertEquals(OptionalDouble.empty(), half.einsteinAUncertainty(s6, p3));

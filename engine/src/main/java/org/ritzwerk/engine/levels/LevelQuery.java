@@ -214,7 +214,8 @@ public final class LevelQuery {
                 double lifetime = lifetimes ? lines.lifetime(levels.n(i), levels.l(i), levels.twoJ(i)) : Double.NaN;
                 part.add(species, levels.label(i), levels.n(i), levels.l(i), levels.twoJ(i),
                         levels.twoF(i) < 0 ? none : levels.twoF(i), levels.statisticalWeight(i),
-                        (levels.energy(i) - ground) / hcPerCm, Double.NaN, tier, lifetime, Double.NaN, Double.NaN);
+                        (levels.energy(i) - ground) / hcPerCm, Double.NaN, tier, lifetime, Double.NaN, Double.NaN,
+                        Double.NaN);
             }
             parts.accept(part.build());
             progress.report(species, lifetimes ? Math.pow((double) n / maxN, 4) : (double) n * n / ((double) maxN * maxN));
@@ -250,15 +251,19 @@ public final class LevelQuery {
                             ? atom.radiativeLifetimeUncertainty(state).orElse(Double.NaN) : Double.NaN;
                     double withBlackBody = effective && !ground ? atom.effectiveLifetime(state, temperature)
                             : Double.NaN;
+                    double withBlackBodySigma = effective && !ground
+                            ? atom.effectiveLifetimeUncertainty(state, temperature).orElse(Double.NaN) : Double.NaN;
                     List<HyperfineLevel> fLevels = hyperfine ? split.apply(state) : List.of();
                     if (fLevels.isEmpty()) {
                         part.add(atom.species(), state.notation(), n, l, twoJ, none, twoJ + 1, level.energyPerCm(),
-                                level.uncertaintyPerCm(), origin, lifetime, lifetimeSigma, withBlackBody);
+                                level.uncertaintyPerCm(), origin, lifetime, lifetimeSigma, withBlackBody,
+                                withBlackBodySigma);
                     }
                     for (HyperfineLevel f : fLevels) {
                         part.add(atom.species(), state.notation(), n, l, twoJ, f.twoF(), f.twoF() + 1,
                                 level.energyPerCm() + f.shiftHertz() / (PhysicalConstants.C * 100), Double.NaN,
-                                origin + ", hyperfine A, B", lifetime, lifetimeSigma, withBlackBody);
+                                origin + ", hyperfine A, B", lifetime, lifetimeSigma, withBlackBody,
+                                withBlackBodySigma);
                     }
                 }
             }
@@ -278,7 +283,7 @@ public final class LevelQuery {
             LevelDesignation d = set.designation(i);
             part.add(set.species(), set.label(i), none, none, d.hasJ() ? d.twoJ() : none, none,
                     d.hasJ() ? d.twoJ() + 1 : none, set.energyPerCm(i), set.uncertaintyPerCm(i).orElse(Double.NaN),
-                    model, Double.NaN, Double.NaN, Double.NaN);
+                    model, Double.NaN, Double.NaN, Double.NaN, Double.NaN);
         }
         return part.build();
     }

@@ -60,6 +60,7 @@ public final class LevelSet {
     private final double[] lifetime;
     private final double[] lifetimeSigma;
     private final double[] effective;
+    private final double[] effectiveSigma;
     private final List<Omission> omissions;
 
     private LevelSet(Builder b) {
@@ -77,6 +78,7 @@ public final class LevelSet {
         lifetime = Arrays.copyOf(b.lifetime, size);
         lifetimeSigma = Arrays.copyOf(b.lifetimeSigma, size);
         effective = Arrays.copyOf(b.effective, size);
+        effectiveSigma = Arrays.copyOf(b.effectiveSigma, size);
         omissions = List.copyOf(b.omissions);
     }
 
@@ -96,7 +98,7 @@ public final class LevelSet {
             for (int i = 0; i < part.size(); i++) {
                 b.add(part.species[i], part.label[i], part.n[i], part.l[i], part.twoJ[i], part.twoF[i],
                         part.weight[i], part.energy[i], part.energySigma[i], part.model[i], part.lifetime[i],
-                        part.lifetimeSigma[i], part.effective[i]);
+                        part.lifetimeSigma[i], part.effective[i], part.effectiveSigma[i]);
             }
             part.omissions.forEach(b::omit);
         }
@@ -204,9 +206,10 @@ public final class LevelSet {
 
     /**
      * @param i a level, 0 to size() - 1
-     * @return the standard uncertainty of {@link #lifetimeSeconds} in s, where published dipole elements
-     *         decide every decay channel (alkali atoms: {@code AlkaliAtom.radiativeLifetimeUncertainty});
-     *         empty where it is not estimated
+     * @return the standard uncertainty of {@link #lifetimeSeconds} in s (alkali atoms:
+     *         {@code AlkaliAtom.radiativeLifetimeUncertainty}: published elements' stated uncertainties, and for
+     *         computed elements the spread of two models where the atom has a second one); empty where it is not
+     *         estimated
      */
     public OptionalDouble lifetimeUncertaintySeconds(int i) {
         return Double.isFinite(lifetimeSigma[i]) ? OptionalDouble.of(lifetimeSigma[i]) : OptionalDouble.empty();
@@ -219,6 +222,16 @@ public final class LevelSet {
      */
     public OptionalDouble effectiveLifetimeSeconds(int i) {
         return Double.isFinite(effective[i]) ? OptionalDouble.of(effective[i]) : OptionalDouble.empty();
+    }
+
+    /**
+     * @param i a level, 0 to size() - 1
+     * @return the standard uncertainty of {@link #effectiveLifetimeSeconds} in s (alkali atoms:
+     *         {@code AlkaliAtom.effectiveLifetimeUncertainty}, made as {@link #lifetimeUncertaintySeconds});
+     *         empty where it is not estimated or no effective lifetime was asked for
+     */
+    public OptionalDouble effectiveLifetimeUncertaintySeconds(int i) {
+        return Double.isFinite(effectiveSigma[i]) ? OptionalDouble.of(effectiveSigma[i]) : OptionalDouble.empty();
     }
 
     /** @return the levels that exist but could not be given, per species */
@@ -253,12 +266,13 @@ public final class LevelSet {
         private double[] lifetime = new double[16];
         private double[] lifetimeSigma = new double[16];
         private double[] effective = new double[16];
+        private double[] effectiveSigma = new double[16];
         private final List<Omission> omissions = new ArrayList<>();
 
         /** Integer columns take {@link #NONE} and doubles NaN where a row has no value. */
         void add(Species s, String text, int nValue, int lValue, int twoJValue, int twoFValue, int g, double perCm,
                 double sigmaPerCm, String modelName, double lifetimeSeconds, double lifetimeSigmaSeconds,
-                double effectiveSeconds) {
+                double effectiveSeconds, double effectiveSigmaSeconds) {
             if (size == label.length) {
                 int grown = size * 2;
                 species = Arrays.copyOf(species, grown);
@@ -274,6 +288,7 @@ public final class LevelSet {
                 lifetime = Arrays.copyOf(lifetime, grown);
                 lifetimeSigma = Arrays.copyOf(lifetimeSigma, grown);
                 effective = Arrays.copyOf(effective, grown);
+                effectiveSigma = Arrays.copyOf(effectiveSigma, grown);
             }
             species[size] = s;
             label[size] = text;
@@ -288,6 +303,7 @@ public final class LevelSet {
             lifetime[size] = lifetimeSeconds;
             lifetimeSigma[size] = lifetimeSigmaSeconds;
             effective[size] = effectiveSeconds;
+            effectiveSigma[size] = effectiveSigmaSeconds;
             size++;
         }
 

@@ -71,7 +71,7 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * and Cs 2 to 2.6 % long). They are options, not the default: besides the resonance lines they
  * change every element between a Rydberg state and the lowest levels, whose channels dominate
  * Rydberg lifetimes (at 0 K, n = 30 to 60: Rb s and d 8 % shorter, p 22 % longer; Cs, K 4 to 12 %;
- * Na 2 to 18 %), and those lifetimes are not yet checked against measurements here.
+ * Na 2 to 18 %); that spread is what {@link #withModelSpread} states as the computed lifetimes' uncertainty.
  *
  * <p><b>Published elements</b>: {@link #withPublishedDipoles(List)} replaces the computed element of
  * chosen low-lying pairs by a published one (measured, or deduced from a measured lifetime); the
@@ -86,9 +86,13 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * of them is not stated; core-polarization and hydrogenic levels have none (not estimated). A
  * transition combines its two levels' as independent, except two formula levels, whose shared
  * inputs are propagated together (the limit cancels; see {@link #frequencyUncertaintyHz}).
- * A dipole element, its Einstein A and a lifetime carry one only where published elements decide them
- * ({@link #reducedDipoleUncertainty}, {@link #einsteinAUncertainty}, {@link #radiativeLifetimeUncertainty});
- * computed elements, black-body rates and effective lifetimes have none (not estimated).
+ * A dipole element, its Einstein A and a lifetime carry one where published elements decide them (their
+ * stated uncertainties), and where computed elements do, with a second model set ({@link #withModelSpread};
+ * the data context's atoms have one), the spread between the two published methods of computing them (the
+ * Coulomb approximation and the model potential with the core-polarized operator): a model-spread estimate
+ * ({@link #reducedDipoleUncertainty}, {@link #einsteinAUncertainty}, {@link #radiativeLifetimeUncertainty},
+ * and {@link #effectiveLifetimeUncertainty} for the lifetime with black-body radiation); a black-body
+ * rate alone has none (not estimated).
  *
  * <p><b>Accuracy</b> (see the tests): levels as good as the measured values and the fits (the
  * fits meet the measured levels within 0.1 cm^-1 from valid-from-n on); Rydberg-Rydberg dipole
@@ -130,14 +134,19 @@ public final class AlkaliAtom {
     private final double innerRadius;
     /** Published elements used instead of the computed ones, by pair of states; empty for none. */
     private final Map<List<State>, PublishedDipole> published;
+    /** The model potential of the second model whose spread states computed elements' uncertainty; null for none. */
+    private final ModelPotential spreadModel;
+    /** The atom of the second model, made when first asked for (null until then, or without a spread model). */
+    private volatile AlkaliAtom secondModel;
     /** Wavefunctions computed so far (they are immutable); cleared when it reaches its bound. */
     private final Map<State, RadialWavefunction> wavefunctions = new java.util.concurrent.ConcurrentHashMap<>();
 
     private AlkaliAtom(QuantumDefects defects, List<MeasuredLevel> measuredList, CorePolarizability core, double step,
             ModelPotential model, ModelPotential dipoleCore, double innerRadius,
-            Map<List<State>, PublishedDipole> published) {
+            Map<List<State>, PublishedDipole> published, ModelPotential spreadModel) {
         this.defects = defects;
         this.published = published;
+        this.spreadModel = spreadModel;
         this.innerRadius = innerRadius;
         this.model = model;
         this.dipoleCore = dipoleCore;
@@ -194,7 +203,7 @@ public final class AlkaliAtom {
     public static AlkaliAtom of(QuantumDefects defects, List<MeasuredLevel> measured, CorePolarizability core) {
         Objects.requireNonNull(defects, "defects");
         Objects.requireNonNull(measured, "measured");
-        return new AlkaliAtom(defects, measured, core, DEFAULT_STEP, null, null, Double.NaN, Map.of());
+        return new AlkaliAtom(defects, measured, core, DEFAULT_STEP, null, null, Double.NaN, Map.of(), null);
     }
 
     /**
@@ -205,7 +214,8 @@ public final class AlkaliAtom {
         if (!(newStep >= 1e-4 && newStep <= 0.1)) {
             throw new IllegalArgumentException("Numerov step must be 1e-4 to 0.1, got " + newStep);
         }
-        return new AlkaliAtom(defects, measuredList, core, newStep, model, dipoleCore, innerRadius, published);
+        return new AlkaliAtom(defects, measuredList, core, newStep, model, dipoleCore, innerRadius,
+                published, spreadModel);
     }
 
     /**
@@ -219,7 +229,8 @@ public final class AlkaliAtom {
      *         takes the integration into the core
      */
     public AlkaliAtom withModelPotential(ModelPotential potential) {
-        return new AlkaliAtom(defects, measuredList, core, step, potential, dipoleCore, innerRadius, published);
+        return new AlkaliAtom(defects, measuredList, core, step, potential, dipoleCore, innerRadius,
+                published, spreadModel);
     }
 
     /**
@@ -248,7 +259,8 @@ public final class AlkaliAtom {
      * @return the same atom with that dipole operator
      */
     public AlkaliAtom withCorePolarizedDipole(ModelPotential parameters) {
-        return new AlkaliAtom(defects, measuredList, core, step, model, parameters, innerRadius, published);
+        return new AlkaliAtom(defects, measuredList, core, step, model, parameters, innerRadius,
+                published, spreadModel);
     }
 
     /**
@@ -269,7 +281,7 @@ public final class AlkaliAtom {
             throw new IllegalArgumentException("inner radius must be 1e-4 to 10 a0 (or NaN for the default), got "
                     + radiusBohr + " a0");
         }
-        return new AlkaliAtom(defects, measuredList, core, step, model, dipoleCore, radiusBohr, published);
+        return new AlkaliAtom(defects, measuredList, core, step, model, dipoleCore, radiusBohr, published, spreadModel);
     }
 
     /**
@@ -302,7 +314,58 @@ public final class AlkaliAtom {
             }
         }
         return new AlkaliAtom(defects, measuredList, core, step, model, dipoleCore, innerRadius,
-                Collections.unmodifiableMap(byPair));
+                Collections.unmodifiableMap(byPair), spreadModel);
+    }
+
+    /**
+     * The second model whose spread from this one states the uncertainty of computed dipole elements,
+     * Einstein A coefficients and lifetimes ({@link #reducedDipoleUncertainty}, {@link #einsteinAUncertainty},
+     * {@link #radiativeLifetimeUncertainty}). Two published methods compute the elements: the Coulomb
+     * approximation with the bare dipole operator (the default) and the model potential integrated into the
+     * core with the core-polarized operator ({@code withModelPotential(p).withInnerRadius(0.01)
+     * .withCorePolarizedDipole(p)}). The second model is the other one: the model potential one for an atom in
+     * the Coulomb approximation with the bare operator, else the Coulomb approximation with the bare operator.
+     * It keeps this atom's levels, step and published elements, so published elements carry their own
+     * uncertainty and the spread comes from computed ones only. Taking the whole difference of two methods as
+     * a standard uncertainty is a model-spread estimate (common practice in atomic theory); the tests hold it
+     * to published lifetime measurements.
+     *
+     * <p>The second model's wavefunctions are computed when first asked for, in an atom of their own
+     * (made once per atom): asking for lifetime uncertainties costs about as much again as the lifetimes, and
+     * for effective lifetimes about 1.8 times as much again (the model potential, integrated down to 0.01 a0,
+     * is slower than the Coulomb approximation over the black-body neighbours up to 2n + 10).
+     *
+     * @param parameters the model potential and core-polarized operator of the second model (for the data
+     *                   context's atoms, the built-in Marinescu et al. (1994) set of the element), or null
+     *                   for none (computed elements then carry no uncertainty)
+     * @return the same atom with that second model
+     */
+    public AlkaliAtom withModelSpread(ModelPotential parameters) {
+        return new AlkaliAtom(defects, measuredList, core, step, model, dipoleCore, innerRadius, published,
+                parameters);
+    }
+
+    /** @return the parameters of the second model of {@link #withModelSpread}, if set */
+    public Optional<ModelPotential> modelSpread() {
+        return Optional.ofNullable(spreadModel);
+    }
+
+    /**
+     * @return the atom of the second model ({@link #withModelSpread}), made once; null without a spread model
+     */
+    private AlkaliAtom secondModel() {
+        if (spreadModel == null) {
+            return null;
+        }
+        AlkaliAtom second = secondModel;
+        if (second == null) {
+            boolean coulomb = model == null && dipoleCore == null;
+            second = coulomb
+                    ? new AlkaliAtom(defects, measuredList, core, step, spreadModel, spreadModel, 0.01, published, null)
+                    : new AlkaliAtom(defects, measuredList, core, step, null, null, Double.NaN, published, null);
+            secondModel = second;
+        }
+        return second;
     }
 
     /** @return the published elements this atom uses instead of computed ones (none by default) */
@@ -1141,75 +1204,109 @@ public final class AlkaliAtom {
     }
 
     /**
-     * The standard uncertainty of {@link #reducedDipole} where a published element
-     * ({@link #withPublishedDipoles(List)}) gives it: the element's stated uncertainty.
+     * The standard uncertainty of {@link #reducedDipole}: for a published element
+     * ({@link #withPublishedDipoles(List)}) the element's stated uncertainty; for a computed one the
+     * spread of the two models ({@link #withModelSpread}), {@code |d - d'|}, d' the second model's element.
      *
      * @param a first state
      * @param b second state, with l differing by one
-     * @return {@code u(|<a||d||b>|)} in e a0, or empty for a computed element (not estimated)
-     * @throws RydbergException when l and l' do not differ by one
+     * @return {@code u(|<a||d||b>|)} in e a0, or empty for a computed element of an atom without a second
+     *         model (not estimated)
+     * @throws RydbergException when l and l' do not differ by one, or a level is refused
      */
     public OptionalDouble reducedDipoleUncertainty(State a, State b) {
         checkDipole(a, b);
         PublishedDipole given = published.get(pair(a, b));
-        return given == null ? OptionalDouble.empty() : OptionalDouble.of(given.uncertaintyBohr());
+        if (given != null) {
+            return OptionalDouble.of(given.uncertaintyBohr());
+        }
+        AlkaliAtom second = secondModel();
+        if (second == null) {
+            return OptionalDouble.empty();
+        }
+        return OptionalDouble.of(Math.abs(Math.abs(reducedDipole(a, b)) - Math.abs(second.reducedDipole(a, b))));
     }
 
     /**
-     * The standard uncertainty of {@link #einsteinA} where a published element gives it, to first order
-     * (GUM, JCGM 100:2008, eq. 10): A grows as |d|^2, so {@code u(A) = 2 A u(d) / |d|}. The frequency's
+     * The standard uncertainty of {@link #einsteinA}: where a published element gives it, to first order
+     * (GUM, JCGM 100:2008, eq. 10): A grows as |d|^2, so {@code u(A) = 2 A u(d) / |d|}; for a computed
+     * element the spread of the two models ({@link #withModelSpread}), {@code |A - A'|}. The frequency's
      * uncertainty (parts in 1e9 and below) is left out.
      *
      * @param upper the upper state
      * @param lower a lower state, with l differing by one
-     * @return u(A) in s^-1, or empty for a computed element (not estimated)
+     * @return u(A) in s^-1, or empty for a computed element of an atom without a second model (not estimated)
      * @throws IllegalArgumentException when {@code lower} is not below {@code upper}
      * @throws RydbergException         when l and l' do not differ by one, or a level is refused
      */
     public OptionalDouble einsteinAUncertainty(State upper, State lower) {
         PublishedDipole given = published.get(pair(upper, lower));
         double a = einsteinA(upper, lower);
-        if (given == null) {
-            return OptionalDouble.empty();
+        if (given != null) {
+            return OptionalDouble.of(2 * a * given.uncertaintyBohr() / given.reducedBohr());
         }
-        return OptionalDouble.of(2 * a * given.uncertaintyBohr() / given.reducedBohr());
+        AlkaliAtom second = secondModel();
+        return second == null ? OptionalDouble.empty()
+                : OptionalDouble.of(Math.abs(a - second.einsteinA(upper, lower)));
     }
 
     /**
-     * The standard uncertainty of {@link #radiativeLifetime} where published elements decide every decay
-     * channel (the first p levels of the built-in atoms, whose only channel is the resonance line; Cs
-     * 5d and 7s): {@code tau = 1 / sum A_i}, so to first order {@code u(tau) = tau^2 sum u(A_i)}
-     * ({@link #einsteinAUncertainty}), the channels taken as fully correlated: the elements of one
-     * multiplet often share their source (the built-in Cs 5d3/2 pair is one element scaled by LS line
-     * strengths), and the linear sum bounds any correlation from above. A single channel taken from a
-     * measured lifetime gives that measurement's uncertainty back. A state no published element
-     * involves (every Rydberg state) is answered without computing its channels.
+     * The standard uncertainty of {@link #radiativeLifetime}, from two parts taken as independent and
+     * added in quadrature (GUM, JCGM 100:2008, eq. 10):
+     * <ul>
+     * <li>the published elements' ({@link #withPublishedDipoles(List)}): {@code tau = 1 / sum A_i}, so to first
+     * order {@code u(tau) = tau^2 sum u(A_i)} over the channels they decide ({@link #einsteinAUncertainty}),
+     * taken as fully correlated: the elements of one multiplet often share their source (the built-in Cs
+     * 5d3/2 pair is one element scaled by LS line strengths), and the linear sum bounds any correlation from
+     * above. A single channel taken from a measured lifetime gives that measurement's uncertainty back;</li>
+     * <li>the computed elements': the spread of the two models ({@link #withModelSpread}),
+     * {@code |tau - tau'|}, tau' the lifetime of the second model, which shares the published elements (a
+     * model-spread estimate, common practice in atomic theory). The lifetime's spread, not the channels'
+     * added up: most channels of a Rydberg state move the same way between the models and their changes
+     * add, while a channel whose share is small does not count beyond it.</li>
+     * </ul>
+     * A state whose channels are all published has only the first part; one with computed channels in an
+     * atom without a second model has none (empty), and a state no published element involves is then
+     * answered without computing its channels. Held to published lifetime measurements in the tests
+     * (low-lying states of Na, K, Rb and Cs, and Rydberg states of Rb).
      *
      * @param state a state above the ground level
-     * @return u(tau) in seconds, or empty when any channel's element is computed (not estimated)
-     * @throws IllegalArgumentException for a state without a decay channel that a published element involves
+     * @return u(tau) in seconds, or empty when a channel's element is computed and the atom has no second
+     *         model (not estimated)
+     * @throws IllegalArgumentException for a state without a decay channel
      * @throws RydbergException         when a level on the way is refused
      */
     public OptionalDouble radiativeLifetimeUncertainty(State state) {
         Objects.requireNonNull(state, "state");
-        if (published.keySet().stream().noneMatch(pair -> pair.contains(state))) {
+        AlkaliAtom second = secondModel();
+        if (second == null && published.keySet().stream().noneMatch(pair -> pair.contains(state))) {
             return OptionalDouble.empty();
         }
         double rate = 0;
-        double rateUncertainty = 0;
+        double publishedRateUncertainty = 0;
+        boolean computed = false;
         for (DecayChannel c : spontaneousChannels(state)) {
             if (c.ratePerSecond() == 0) {
                 continue;
             }
+            rate += c.ratePerSecond();
             PublishedDipole given = published.get(pair(c.from(), c.to()));
             if (given == null) {
-                return OptionalDouble.empty();
+                computed = true;
+            } else {
+                publishedRateUncertainty += 2 * c.ratePerSecond() * given.uncertaintyBohr() / given.reducedBohr();
             }
-            rate += c.ratePerSecond();
-            rateUncertainty += 2 * c.ratePerSecond() * given.uncertaintyBohr() / given.reducedBohr();
         }
         double tau = lifetime(state, rate);
-        return OptionalDouble.of(tau * tau * rateUncertainty);
+        double fromPublished = tau * tau * publishedRateUncertainty;
+        if (!computed) {
+            return OptionalDouble.of(fromPublished);
+        }
+        if (second == null) {
+            return OptionalDouble.empty();
+        }
+        double spread = tau - second.radiativeLifetime(state);
+        return OptionalDouble.of(Math.hypot(fromPublished, spread));
     }
 
     /**
@@ -1277,6 +1374,56 @@ public final class AlkaliAtom {
     public double effectiveLifetime(State state, double temperatureK) {
         double blackBody = blackbodyRate(state, temperatureK);     // checks the temperature first
         return 1 / (spontaneousRate(state) + blackBody);
+    }
+
+    /**
+     * The standard uncertainty of {@link #effectiveLifetime}, made as for {@link #radiativeLifetimeUncertainty}
+     * with the black-body channels added to the spontaneous ones: {@code tau^2 sum u(R_i)} over the channels
+     * published elements decide (u(R) = 2 R u(d) / |d| for a rate R proportional to |d|^2), fully correlated,
+     * and in quadrature the model spread {@code |tau - tau'|} of the second model's effective lifetime
+     * ({@link #withModelSpread}). The Planck occupation and the temperature are taken as exact; black-body
+     * photoionisation, which {@link #effectiveLifetime} leaves out, is not counted in either. At 0 K it is
+     * {@link #radiativeLifetimeUncertainty}. Costs the second model's black-body channels too (n' up to 2n + 10).
+     *
+     * @param state        a state above the ground level
+     * @param temperatureK the radiation temperature, K (as {@link #blackbodyChannels})
+     * @return u(tau_eff) in seconds, or empty when a channel's element is computed and the atom has no second
+     *         model (not estimated)
+     * @throws IllegalArgumentException for a temperature out of range, or a state without a decay channel
+     * @throws RydbergException         when a level on the way is refused
+     */
+    public OptionalDouble effectiveLifetimeUncertainty(State state, double temperatureK) {
+        Objects.requireNonNull(state, "state");
+        List<DecayChannel> channels = new ArrayList<>(blackbodyChannels(state, temperatureK)); // checks T first
+        AlkaliAtom second = secondModel();
+        if (second == null && published.keySet().stream().noneMatch(pair -> pair.contains(state))) {
+            return OptionalDouble.empty();
+        }
+        channels.addAll(spontaneousChannels(state));
+        double rate = 0;
+        double publishedRateUncertainty = 0;
+        boolean computed = false;
+        for (DecayChannel c : channels) {
+            if (c.ratePerSecond() == 0) {
+                continue;
+            }
+            rate += c.ratePerSecond();
+            PublishedDipole given = published.get(pair(c.from(), c.to()));
+            if (given == null) {
+                computed = true;
+            } else {
+                publishedRateUncertainty += 2 * c.ratePerSecond() * given.uncertaintyBohr() / given.reducedBohr();
+            }
+        }
+        double tau = lifetime(state, rate);
+        double fromPublished = tau * tau * publishedRateUncertainty;
+        if (!computed) {
+            return OptionalDouble.of(fromPublished);
+        }
+        if (second == null) {
+            return OptionalDouble.empty();
+        }
+        return OptionalDouble.of(Math.hypot(fromPublished, tau - second.effectiveLifetime(state, temperatureK)));
     }
 
     @Override
