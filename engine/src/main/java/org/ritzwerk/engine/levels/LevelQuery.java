@@ -230,41 +230,40 @@ public final class LevelQuery {
         boolean effective = lifetimes && !Double.isNaN(temperature);
         for (int n = 1; n <= maxN; n++) {
             LevelSet.Builder part = new LevelSet.Builder();
+            List<State> states = new ArrayList<>();
             for (int l = 0; l <= Math.min(maxL, n - 1); l++) {
                 for (int twoJ = Math.max(1, 2 * l - 1); twoJ <= 2 * l + 1; twoJ += 2) {
-                    State state = State.of(n, l, twoJ);
-                    if (n < atom.lowestN(l)) {
-                        continue; // filled by the core: no such level
+                    if (n >= atom.lowestN(l)) {
+                        states.add(State.of(n, l, twoJ)); // below: filled by the core, no such level
                     }
-                    Level level;
-                    try {
-                        level = atom.level(state);
-                    } catch (RydbergException e) {
-                        skipped++;
-                        firstSkipped = firstSkipped == null ? state.notation() : firstSkipped;
-                        continue;
-                    }
-                    String origin = level.origin().name().toLowerCase(Locale.ROOT).replace('_', '-');
-                    boolean ground = state.equals(atom.groundState());
-                    double lifetime = lifetimes && !ground ? atom.radiativeLifetime(state) : Double.NaN;
-                    double lifetimeSigma = lifetimes && !ground
-                            ? atom.radiativeLifetimeUncertainty(state).orElse(Double.NaN) : Double.NaN;
-                    double withBlackBody = effective && !ground ? atom.effectiveLifetime(state, temperature)
-                            : Double.NaN;
-                    double withBlackBodySigma = effective && !ground
-                            ? atom.effectiveLifetimeUncertainty(state, temperature).orElse(Double.NaN) : Double.NaN;
-                    List<HyperfineLevel> fLevels = hyperfine ? split.apply(state) : List.of();
-                    if (fLevels.isEmpty()) {
-                        part.add(atom.species(), state.notation(), n, l, twoJ, none, twoJ + 1, level.energyPerCm(),
-                                level.uncertaintyPerCm(), origin, lifetime, lifetimeSigma, withBlackBody,
-                                withBlackBodySigma);
-                    }
-                    for (HyperfineLevel f : fLevels) {
-                        part.add(atom.species(), state.notation(), n, l, twoJ, f.twoF(), f.twoF() + 1,
-                                level.energyPerCm() + f.shiftHertz() / (PhysicalConstants.C * 100), Double.NaN,
-                                origin + ", hyperfine A, B", lifetime, lifetimeSigma, withBlackBody,
-                                withBlackBodySigma);
-                    }
+                }
+            }
+            // the rates of one n's states are independent (the atom's caches are concurrent): with lifetimes they
+            // take most of the time, so they are computed side by side, and used in the order of the states
+            List<AlkaliRow> rows = (lifetimes && states.size() > 1 ? states.parallelStream() : states.stream())
+                    .map(state -> alkaliRow(atom, state, effective)).toList();
+            for (AlkaliRow row : rows) {
+                State state = row.state();
+                Level level = row.level();
+                if (level == null) {
+                    skipped++;
+                    firstSkipped = firstSkipped == null ? state.notation() : firstSkipped;
+                    continue;
+                }
+                int l = state.l();
+                int twoJ = state.twoJ();
+                String origin = level.origin().name().toLowerCase(Locale.ROOT).replace('_', '-');
+                List<HyperfineLevel> fLevels = hyperfine ? split.apply(state) : List.of();
+                if (fLevels.isEmpty()) {
+                    part.add(atom.species(), state.notation(), n, l, twoJ, none, twoJ + 1, level.energyPerCm(),
+                            level.uncertaintyPerCm(), origin, row.lifetime(), row.lifetimeSigma(),
+                            row.withBlackBody(), row.withBlackBodySigma());
+                }
+                for (HyperfineLevel f : fLevels) {
+                    part.add(atom.species(), state.notation(), n, l, twoJ, f.twoF(), f.twoF() + 1,
+                            level.energyPerCm() + f.shiftHertz() / (PhysicalConstants.C * 100), Double.NaN,
+                            origin + ", hyperfine A, B", row.lifetime(), row.lifetimeSigma(), row.withBlackBody(),
+                            row.withBlackBodySigma());
                 }
             }
             if (n == maxN && skipped > 0) {
@@ -273,6 +272,28 @@ public final class LevelQuery {
             parts.accept(part.build());
             progress.report(atom.species(), (double) n / maxN);
         }
+    }
+
+    /** One alkali state's level (null when the model has none) and rates, NaN where not asked for. */
+    private record AlkaliRow(State state, Level level, double lifetime, double lifetimeSigma, double withBlackBody,
+            double withBlackBodySigma) {
+    }
+
+    private AlkaliRow alkaliRow(AlkaliAtom atom, State state, boolean effective) {
+        Level level;
+        try {
+            level = atom.level(state);
+        } catch (RydbergException e) {
+            return new AlkaliRow(state, null, Double.NaN, Double.NaN, Double.NaN, Double.NaN);
+        }
+        boolean ground = state.equals(atom.groundState());
+        double lifetime = lifetimes && !ground ? atom.radiativeLifetime(state) : Double.NaN;
+        double lifetimeSigma = lifetimes && !ground
+                ? atom.radiativeLifetimeUncertainty(state).orElse(Double.NaN) : Double.NaN;
+        double withBlackBody = effective && !ground ? atom.effectiveLifetime(state, temperature) : Double.NaN;
+        double withBlackBodySigma = effective && !ground
+                ? atom.effectiveLifetimeUncertainty(state, temperature).orElse(Double.NaN) : Double.NaN;
+        return new AlkaliRow(state, level, lifetime, lifetimeSigma, withBlackBody, withBlackBodySigma);
     }
 
     private static LevelSet listed(RitzLevels set) {
