@@ -115,13 +115,17 @@ final class AlkaliTables {
         double uA = atom.einsteinAUncertainty(upper, lower).orElse(Double.NaN);
         double uTauUpper = atom.radiativeLifetimeUncertainty(upper).orElse(Double.NaN);
         double uTauLower = lowerIsGround ? 0 : atom.radiativeLifetimeUncertainty(lower).orElse(Double.NaN);
+        double uEffectiveUpper = atom.effectiveLifetimeUncertainty(upper, temperature).orElse(Double.NaN);
+        double uEffectiveLower = lowerIsGround ? 0
+                : atom.effectiveLifetimeUncertainty(lower, temperature).orElse(Double.NaN);
         Object[] row = {atom.species().notation(), upper.notation(), lower.notation(), line.frequencyHz(0), uHz,
             vacuum * 1e9, line.vacuumWavelengthUncertaintyMetres(0).orElse(Double.NaN) * 1e9,
             air(vacuum) * 1e9, line.wavenumberPerCm(0), atom.reducedDipole(upper, lower),
             uDipole, line.einsteinA(0).getAsDouble(), uA, line.oscillatorStrength(0).getAsDouble(),
-            atom.radiativeLifetime(upper), uTauUpper, atom.effectiveLifetime(upper, temperature),
+            atom.radiativeLifetime(upper), uTauUpper, atom.effectiveLifetime(upper, temperature), uEffectiveUpper,
             lowerIsGround ? null : atom.radiativeLifetime(lower), lowerIsGround ? null : uTauLower,
-            lowerIsGround ? null : atom.effectiveLifetime(lower, temperature), temperature};
+            lowerIsGround ? null : atom.effectiveLifetime(lower, temperature),
+            lowerIsGround ? null : uEffectiveLower, temperature};
         working.close();
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
@@ -141,14 +145,16 @@ final class AlkaliTables {
                 Table.Column.number("upper_lifetime_s", "tau_u s", "%.4e"),
                 Table.Column.number("uncertainty_upper_lifetime_s", "u tau_u s", "%.2g"),
                 Table.Column.number("upper_effective_lifetime_s", "tau_u(T) s", "%.4e"),
+                Table.Column.number("uncertainty_upper_effective_lifetime_s", "u tau_u(T) s", "%.2g"),
                 Table.Column.number("lower_lifetime_s", "tau_l s", "%.4e"),
                 Table.Column.number("uncertainty_lower_lifetime_s", "u tau_l s", "%.2g"),
                 Table.Column.number("lower_effective_lifetime_s", "tau_l(T) s", "%.4e"),
+                Table.Column.number("uncertainty_lower_effective_lifetime_s", "u tau_l(T) s", "%.2g"),
                 Table.Column.number("temperature_k", "T K", "%.1f")), out, format);
         table.add(row);
         table.finish();
-        String[] names = {"u Hz", "u e a0", "u A s-1", "u tau_u s", "u tau_l s"};
-        double[] values = {uHz, uDipole, uA, uTauUpper, uTauLower};
+        String[] names = {"u Hz", "u e a0", "u A s-1", "u tau_u s", "u tau_u(T) s", "u tau_l s", "u tau_l(T) s"};
+        double[] values = {uHz, uDipole, uA, uTauUpper, uEffectiveUpper, uTauLower, uEffectiveLower};
         List<String> missing = new ArrayList<>();
         for (int i = 0; i < names.length; i++) {
             if (Double.isNaN(values[i])) {
@@ -242,13 +248,20 @@ final class AlkaliTables {
      * @param pairs lower and upper states of the dipole elements shown, two per pair; empty for none
      */
     static void sourcesNote(AlkaliAtom atom, PrintWriter err, State[] states, State... pairs) {
-        List<String> items = new ArrayList<>();
+        // levels with one source (two formula levels of one set) are named together before it
+        java.util.Map<String, List<String>> bySource = new java.util.LinkedHashMap<>();
         for (State state : states) {
-            String item = state.notation() + " energy: " + atom.energySource(state);
-            if (!state.equals(atom.groundState()) && !items.contains(item)) {
-                items.add(item);
+            List<String> named = bySource.computeIfAbsent(atom.energySource(state), k -> new ArrayList<>());
+            if (!state.equals(atom.groundState()) && !named.contains(state.notation())) {
+                named.add(state.notation());
             }
         }
+        List<String> items = new ArrayList<>();
+        bySource.forEach((source, named) -> {
+            if (!named.isEmpty()) {
+                items.add(String.join(", ", named) + (named.size() > 1 ? " energies: " : " energy: ") + source);
+            }
+        });
         for (int i = 0; i + 1 < pairs.length; i += 2) {
             State a = pairs[i];
             State b = pairs[i + 1];

@@ -171,6 +171,16 @@ class LevelsAndLinesCommandTest {
         JsonNode row = new JsonMapper().readTree(transition.out().strip());
         assertEquals(row.get("upper_lifetime_s").asDouble(), row.get("upper_effective_lifetime_s").asDouble());
         assertEquals(row.get("lower_lifetime_s").asDouble(), row.get("lower_effective_lifetime_s").asDouble());
+        // the effective lifetimes' uncertainties are the spontaneous ones at 0 K, and stated at 300 K
+        assertEquals(row.get("uncertainty_upper_lifetime_s").asDouble(),
+                row.get("uncertainty_upper_effective_lifetime_s").asDouble());
+        assertEquals(row.get("uncertainty_lower_lifetime_s").asDouble(),
+                row.get("uncertainty_lower_effective_lifetime_s").asDouble());
+        CliTest.Run warm = CliTest.run("lines", "--species", "Rb-87 I", "--transition", "50d5/2 -> 51p3/2",
+                "--format", "json");
+        JsonNode warmRow = new JsonMapper().readTree(warm.out().strip());
+        double u = warmRow.get("uncertainty_upper_effective_lifetime_s").asDouble();
+        assertTrue(u > 0 && u < 0.2 * warmRow.get("upper_effective_lifetime_s").asDouble(), warmRow.toString());
         CliTest.Run levels = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "6", "--l-max", "0",
                 "--lifetimes", "--temperature", "0", "--format", "json");
         assertEquals(0, levels.code(), levels.err());
