@@ -386,6 +386,8 @@ final class DemoScenario {
         State intermediate = State.parse("5p3/2");
         out.printf(Locale.ROOT, "   %-8s %12s %12s %10s %14s %12s %10s %10s%n", "state", "laser 1 nm", "laser 2 nm",
                 "to", "microwave GHz", "<d> e a0", "tau0 us", "tau300 us");
+        double spread0 = 0;
+        double spread300 = 0;
         for (int n : new int[] {40, 50, 60}) {
             State rydberg = State.of(n, 2, 5);
             LadderExcitation ladder = rb.ladder(ground, intermediate, rydberg);
@@ -395,6 +397,8 @@ final class DemoScenario {
             double dipole = rb.reducedDipole(rydberg, partner);
             double tau0 = rb.radiativeLifetime(rydberg) * 1e6;
             double tau300 = rb.effectiveLifetime(rydberg, 300) * 1e6;
+            spread0 = Math.max(spread0, rb.radiativeLifetimeUncertainty(rydberg).orElseThrow() * 1e6 / tau0);
+            spread300 = Math.max(spread300, rb.effectiveLifetimeUncertainty(rydberg, 300).orElseThrow() * 1e6 / tau300);
             out.printf(Locale.ROOT, "   %-8s %12.4f %12.4f %10s %14.4f %12.1f %10.1f %10.1f%n", rydberg.label(),
                     ladder.firstMetres(Medium.air()) * 1e9, ladder.secondMetres(Medium.air()) * 1e9, partner.label(),
                     Math.abs(ghz), Math.abs(dipole), tau0, tau300);
@@ -411,8 +415,10 @@ final class DemoScenario {
         out.println("   the line's hyperfine-free centroid (Rb-87's own D2 measurement and A, B constants).");
         results.rydbergLockTerahertz = lock.frequencyHertz() / 1e12;
         out.println("   Laser wavelengths in standard air; the dipole is the reduced matrix element (Edmonds'");
-        out.println("   convention); lifetimes from the Coulomb-approximation wavefunctions. Laser light and the");
-        out.println("   lamps above need the usual protection: see the README's safety section.");
+        out.println("   convention); lifetimes from the Coulomb-approximation wavefunctions, uncertain by up to");
+        out.printf(Locale.ROOT, "   %.0f %% at 0 K and %.0f %% at 300 K (the spread of two published methods of computing"
+                + " them).%n", 100 * spread0, 100 * spread300);
+        out.println("   Laser light and the lamps above need the usual protection: see the README's safety section.");
         out.println();
     }
 

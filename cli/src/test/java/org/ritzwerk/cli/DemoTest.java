@@ -69,6 +69,8 @@ class DemoTest {
         assertEquals(384.2304844685 - 2563.006e-6 + (2.25 * 84.7185 + 12.4965 / 4) * 1e-6, r.rydbergLockTerahertz,
                 1e-6, report);
         assertTrue(report.contains("Laser 1 locks to D2 5s1/2 F=2 -> 5p3/2 F'=3"), report);
+        // the lifetimes' stated uncertainty (the model spread, LifetimeModelSpreadTest) is said beside them
+        assertTrue(report.replaceAll("\\s+", " ").contains("uncertain by up to 8 % at 0 K and 5 % at 300 K"), report);
         for (String name : new String[] {"neon-lamp.csv", "calibration.json", "calibration-residuals.png",
             "discharge.csv", "discharge.png", "discharge-peaks.csv"}) {
             assertTrue(Files.size(dir.resolve("out").resolve(name)) > 100, name);
