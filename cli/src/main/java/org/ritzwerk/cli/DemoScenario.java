@@ -416,8 +416,8 @@ final class DemoScenario {
         results.rydbergLockTerahertz = lock.frequencyHertz() / 1e12;
         out.println("   Laser wavelengths in standard air; the dipole is the reduced matrix element (Edmonds'");
         out.println("   convention); lifetimes from the Coulomb-approximation wavefunctions, uncertain by up to");
-        out.printf(Locale.ROOT, "   %.0f %% at 0 K and %.0f %% at 300 K (the spread of two published methods of computing"
-                + " them).%n", 100 * spread0, 100 * spread300);
+        out.printf(Locale.ROOT, "   %.0f %% at 0 K and %.0f %% at 300 K (the spread of two published methods of "
+                + "computing them).%n", 100 * spread0, 100 * spread300);
         out.println("   Laser light and the lamps above need the usual protection: see the README's safety section.");
         out.println();
     }

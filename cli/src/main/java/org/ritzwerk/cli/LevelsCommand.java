@@ -247,7 +247,8 @@ final class LevelsCommand implements Callable<Integer> {
                             notEstimated.computeIfAbsent(part.species(i), k -> new ArrayList<>()).add(part.label(i));
                         }
                         AlkaliAtom atom = atomOf.get(part.species(i));
-                        if (atom != null && part.n(i).isPresent() && part.l(i).isPresent() && part.twoJ(i).isPresent()) {
+                        if (atom != null && part.n(i).isPresent() && part.l(i).isPresent()
+                                && part.twoJ(i).isPresent()) {
                             State state = new State(part.n(i).getAsInt(), part.l(i).getAsInt(),
                                     part.twoJ(i).getAsInt());
                             List<String> near = nearEdge.computeIfAbsent(part.species(i), k -> new ArrayList<>());

@@ -271,8 +271,8 @@ final class SeriesCommand implements Callable<Integer> {
             int members = fit.series().stream().mapToInt(RydbergSeries::size).sum();
             out.printf(java.util.Locale.ROOT, "%s: %d series, %d members%s, R_M = %.6f cm-1; chi2 = %.4g for %d "
                     + "degrees of freedom%s%s%n%n", contents.species().notation(), fit.series().size(), members,
-                    fit.levelsMeasured() == members ? "" : " (measurements of " + fit.levelsMeasured() + " levels)", fit.rydbergPerCm(),
-                    fit.chiSquare(),
+                    fit.levelsMeasured() == members ? "" : " (measurements of " + fit.levelsMeasured() + " levels)",
+                    fit.rydbergPerCm(), fit.chiSquare(),
                     fit.degreesOfFreedom(), quality(fit), fit.unsettledTerms().isPresent()
                             ? "; the choice of terms is UNSETTLED: see the notes for what to quote" : "");
             if (!limit.isEmpty()) {

@@ -109,8 +109,8 @@ class IonisationLimitsTest {
 
     @Test
     void aBadLimitIsRefusedWithItsLineAndKey() {
-        expectProblem("# limit: 1010029.1646 PHz\n", "qd.bad-limit", 10, "limit must be a decimal number and one of the "
-                + "units cm-1, THz, GHz, MHz, kHz");
+        expectProblem("# limit: 1010029.1646 PHz\n", "qd.bad-limit", 10, "limit must be a decimal number and one of "
+                + "the units cm-1, THz, GHz, MHz, kHz");
         expectProblem("# limit: 1010029.1646\n", "qd.bad-limit", 10, "got '1010029.1646'");
         expectProblem("# limit: NaN GHz\n", "qd.bad-limit", 10, "got 'NaN GHz'");
         expectProblem("# limit: 1e6 GHz\n", "qd.bad-limit", 10, "got '1e6 GHz'");

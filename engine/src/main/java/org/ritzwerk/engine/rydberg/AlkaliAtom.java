@@ -1282,31 +1282,7 @@ public final class AlkaliAtom {
         if (second == null && published.keySet().stream().noneMatch(pair -> pair.contains(state))) {
             return OptionalDouble.empty();
         }
-        double rate = 0;
-        double publishedRateUncertainty = 0;
-        boolean computed = false;
-        for (DecayChannel c : spontaneousChannels(state)) {
-            if (c.ratePerSecond() == 0) {
-                continue;
-            }
-            rate += c.ratePerSecond();
-            PublishedDipole given = published.get(pair(c.from(), c.to()));
-            if (given == null) {
-                computed = true;
-            } else {
-                publishedRateUncertainty += 2 * c.ratePerSecond() * given.uncertaintyBohr() / given.reducedBohr();
-            }
-        }
-        double tau = lifetime(state, rate);
-        double fromPublished = tau * tau * publishedRateUncertainty;
-        if (!computed) {
-            return OptionalDouble.of(fromPublished);
-        }
-        if (second == null) {
-            return OptionalDouble.empty();
-        }
-        double spread = tau - second.radiativeLifetime(state);
-        return OptionalDouble.of(Math.hypot(fromPublished, spread));
+        return lifetimeUncertainty(state, spontaneousChannels(state), other -> other.radiativeLifetime(state));
     }
 
     /**
@@ -1400,6 +1376,16 @@ public final class AlkaliAtom {
             return OptionalDouble.empty();
         }
         channels.addAll(spontaneousChannels(state));
+        return lifetimeUncertainty(state, channels, other -> other.effectiveLifetime(state, temperatureK));
+    }
+
+    /**
+     * The two parts of a lifetime's uncertainty over its channels (see {@link #radiativeLifetimeUncertainty}):
+     * the published elements' {@code tau^2 sum u(R_i)}, fully correlated, and in quadrature the second model's
+     * spread {@code |tau - tau'|} where a channel is computed; empty where one is and there is no second model.
+     */
+    private OptionalDouble lifetimeUncertainty(State state, List<DecayChannel> channels,
+            java.util.function.ToDoubleFunction<AlkaliAtom> secondLifetime) {
         double rate = 0;
         double publishedRateUncertainty = 0;
         boolean computed = false;
@@ -1420,10 +1406,11 @@ public final class AlkaliAtom {
         if (!computed) {
             return OptionalDouble.of(fromPublished);
         }
+        AlkaliAtom second = secondModel();
         if (second == null) {
             return OptionalDouble.empty();
         }
-        return OptionalDouble.of(Math.hypot(fromPublished, tau - second.effectiveLifetime(state, temperatureK)));
+        return OptionalDouble.of(Math.hypot(fromPublished, tau - secondLifetime.applyAsDouble(second)));
     }
 
     @Override
