@@ -102,6 +102,38 @@ final class HyperfineTables {
 
     /** Adds frequency, offset from the centroid, vacuum wavelength and (for air) the air wavelength. */
     /**
+     * Prints a ladder's F-resolved paths ({@code AlkaliHyperfine.ladderComponents}): each step's frequency, its
+     * offset from the step's fine-structure centroid and its vacuum wavelength.
+     */
+    static void ladder(DataContext context, AlkaliAtom atom, State[] states, PrintWriter out, Table.Format format) {
+        List<AlkaliHyperfine.LadderComponent> paths;
+        try {
+            paths = AlkaliHyperfine.ladderComponents(context, atom.species(), states[0], states[1], states[2]);
+        } catch (org.ritzwerk.refdata.ReferenceDataException | IllegalArgumentException e) {
+            throw new OptionException("--ladder with --hyperfine: " + e.getMessage(), e);
+        }
+        double first = atom.frequencyHz(states[0], states[1]);
+        double second = atom.frequencyHz(states[1], states[2]);
+        Table table = new Table(List.of(
+                Table.Column.text("species", "species"),
+                Table.Column.text("lower_f", "F"),
+                Table.Column.text("intermediate_f", "F'"),
+                Table.Column.text("upper_f", "F''"),
+                Table.Column.number("first_frequency_hz", "step 1 Hz", "%.12e"),
+                Table.Column.number("first_offset_mhz", "MHz from centroid", "%.4f"),
+                Table.Column.number("first_vacuum_wavelength_nm", "vacuum nm", "%.7f"),
+                Table.Column.number("second_frequency_hz", "step 2 Hz", "%.12e"),
+                Table.Column.number("second_offset_mhz", "MHz from centroid", "%.4f"),
+                Table.Column.number("second_vacuum_wavelength_nm", "vacuum nm", "%.7f")), out, format);
+        for (AlkaliHyperfine.LadderComponent p : paths) {
+            table.add(atom.species().notation(), half(p.twoFLower()), half(p.twoFIntermediate()), half(p.twoFUpper()),
+                    p.firstHertz(), (p.firstHertz() - first) / 1e6, PhysicalConstants.C / p.firstHertz() * 1e9,
+                    p.secondHertz(), (p.secondHertz() - second) / 1e6, PhysicalConstants.C / p.secondHertz() * 1e9);
+        }
+        table.finish();
+    }
+
+    /**
      * The note naming the sources of an atom's D-line centroids and hyperfine constants, with their provenance.
      */
     static String sourcesNote(DataContext context, AlkaliAtom atom) {

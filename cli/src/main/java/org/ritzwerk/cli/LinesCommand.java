@@ -252,6 +252,9 @@ final class LinesCommand implements Callable<Integer> {
             throw new OptionException(HyperfineTables.FIELD_OPTION + " needs --hyperfine (it gives the Zeeman"
                     + " components of the hyperfine lines)");
         }
+        if (ladder != null && fieldTesla == null) {
+            return hyperfineLadder(atoms, rules);
+        }
         for (String option : new String[] {"--from", "--to", "--n-max", "--l-max", "--min-a", "--multiplets",
             "--transition", "--ladder", "--temperature"}) {
             rules.refuseUnless(option, false, "with --hyperfine (it lists the D lines' hyperfine components)");
@@ -273,6 +276,28 @@ final class LinesCommand implements Callable<Integer> {
             }
             spec.commandLine().getErr().flush();
         }
+        return 0;
+    }
+
+    /** --ladder with --hyperfine: the ladder's F-resolved paths (HyperfineTables.ladder). */
+    private int hyperfineLadder(Ions.Atoms atoms, OptionRules rules) {
+        for (String option : new String[] {"--from", "--to", "--n-max", "--l-max", "--min-a", "--multiplets",
+            "--transition", "--temperature"}) {
+            rules.refuseUnless(option, false, "with --ladder and --hyperfine (they list the ladder's F-resolved "
+                    + "paths)");
+        }
+        if (atoms.alkalis().size() != 1 || !atoms.ions().isEmpty()) {
+            throw new OptionException("--ladder needs exactly one alkali atom in --species, e.g. \"Rb-87 I\"");
+        }
+        AlkaliAtom atom = atoms.alkalis().get(0);
+        State[] states = AlkaliTables.ladder(ladder);
+        AlkaliTables.checkRange("--ladder", atom, states);
+        HyperfineTables.ladder(data.context(), atom, states, spec.commandLine().getOut(), format);
+        AlkaliTables.edgeNote(atom, spec.commandLine().getErr(), states);
+        AlkaliTables.sourcesNote(atom, spec.commandLine().getErr(), states);
+        spec.commandLine().getErr().println(HyperfineTables.sourcesNote(data.context(), atom) + "; a Rydberg "
+                + "level's A and B are scaled with n* (README, Hyperfine)");
+        spec.commandLine().getErr().flush();
         return 0;
     }
 

@@ -39,6 +39,30 @@ class HyperfineCommandTest {
         assertEquals(384228115.2e6, Double.parseDouble(cooling.split(",")[4]), 0.1e6, cooling);
     }
 
+    /**
+     * {@code --ladder} with {@code --hyperfine}: the F-resolved paths, the lock path F = 2 -> F' = 3 -> F'' = 2 of
+     * Rb-87 with the D2 component's offset -2369.2652 MHz (the D2 lock offset of {@code lines --hyperfine}, from
+     * Steck's constants: RydbergHyperfineTest), and a refusal naming the level without constants.
+     */
+    @Test
+    void aLadderResolvedIntoFLevels() {
+        CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,60s1/2", "--hyperfine",
+                "--format", "csv");
+        assertEquals(0, run.code(), run.err());
+        String[] rows = run.out().strip().split("\n");
+        assertEquals("species,lower_f,intermediate_f,upper_f,first_frequency_hz,first_offset_mhz,"
+                + "first_vacuum_wavelength_nm,second_frequency_hz,second_offset_mhz,second_vacuum_wavelength_nm",
+                rows[0].replace("\"", "")); // the CSV writer quotes names of more than 24 characters
+        assertEquals(11, rows.length, run.out());
+        String lock = java.util.Arrays.stream(rows).filter(r -> r.startsWith("\"Rb-87 I\",2,3,2,")).findFirst()
+                .orElseThrow();
+        assertEquals(-2369.2652, Double.parseDouble(lock.split(",")[5]), 1e-4, lock);
+        assertTrue(run.err().contains("a Rydberg level's A and B are scaled with n*"), run.err());
+        CliTest.Run na = CliTest.run("lines", "--species", "Na-23 I", "--ladder", "3s1/2,3p3/2,30d5/2", "--hyperfine");
+        assertEquals(2, na.code(), na.err());
+        assertTrue(na.err().contains("--ladder with --hyperfine: no hyperfine constants for Na-23 I 30d5/2"), na.err());
+    }
+
     @Test
     void zeemanComponentsInAField() {
         CliTest.Run run = CliTest.run("lines", "--species", "Cs-133 I", "--hyperfine", "--field-tesla", "0.001",

@@ -408,6 +408,75 @@ public final class AlkaliHyperfine {
     }
 
     /**
+     * One F-resolved path of a two-step (ladder) excitation, F -> F' -> F''.
+     *
+     * @param twoFLower        2 F of the lower level
+     * @param twoFIntermediate 2 F' of the intermediate level
+     * @param twoFUpper        2 F'' of the upper level
+     * @param firstHertz       the first step's frequency, F -> F', Hz
+     * @param secondHertz      the second step's frequency, F' -> F'', Hz
+     */
+    public record LadderComponent(int twoFLower, int twoFIntermediate, int twoFUpper, double firstHertz,
+            double secondHertz) {
+    }
+
+    /**
+     * The F-resolved paths of a ladder lower -> intermediate -> upper: every F -> F' -> F'' whose two steps
+     * are electric-dipole hyperfine components (Delta F = 0, +-1, not 0 -> 0; common practice). Each step's
+     * frequency is the fine-structure centroids' ({@link AlkaliAtom#frequencyHz}) plus the Casimir shifts of
+     * its two F levels, from {@link DataContext#hyperfineConstants}: the measured constants of the low levels,
+     * and a Rydberg level's scaled with n* ({@link RydbergHyperfine}). The two frequencies of a path add up to
+     * the F -> F'' two-photon frequency whatever F'.
+     *
+     * @param context      the data context (constants, nuclear spin, the atom's levels)
+     * @param species      an isotope
+     * @param lower        the lower level, e.g. 5s 2S1/2
+     * @param intermediate the intermediate level, e.g. 5p 2P3/2
+     * @param upper        the upper level, e.g. 60s 2S1/2
+     * @return the paths by F, F', F''
+     * @throws ReferenceDataException when a level has no hyperfine constants here (named)
+     * @throws IllegalArgumentException when a step is not an electric-dipole line (as {@link AlkaliAtom#ladder})
+     */
+    public static List<LadderComponent> ladderComponents(DataContext context, Species species, State lower,
+            State intermediate, State upper) {
+        Objects.requireNonNull(context, "context");
+        AlkaliAtom atom = context.alkaliAtom(species);
+        atom.ladder(lower, intermediate, upper); // refuses steps that are not electric-dipole lines
+        int twoI = context.nucleus(species).twiceSpin();
+        State[] states = {lower, intermediate, upper};
+        List<List<HyperfineLevel>> levels = new ArrayList<>();
+        for (State state : states) {
+            HyperfineConstants c = context.hyperfineConstants(species, state).orElseThrow(() ->
+                    new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no hyperfine constants for "
+                            + species.notation() + " " + state.label() + " (neither measured nor scaled for a "
+                            + "Rydberg level); the ladder cannot be resolved into F levels"));
+            levels.add(HyperfineStructure.levels(twoI, state.twoJ(), c));
+        }
+        double first = atom.frequencyHz(lower, intermediate);
+        double second = atom.frequencyHz(intermediate, upper);
+        List<LadderComponent> out = new ArrayList<>();
+        for (HyperfineLevel f : levels.get(0)) {
+            for (HyperfineLevel f1 : levels.get(1)) {
+                if (!dipoleAllowed(f.twoF(), f1.twoF())) {
+                    continue;
+                }
+                for (HyperfineLevel f2 : levels.get(2)) {
+                    if (dipoleAllowed(f1.twoF(), f2.twoF())) {
+                        out.add(new LadderComponent(f.twoF(), f1.twoF(), f2.twoF(),
+                                first + f1.shiftHertz() - f.shiftHertz(), second + f2.shiftHertz() - f1.shiftHertz()));
+                    }
+                }
+            }
+        }
+        return List.copyOf(out);
+    }
+
+    /** Delta F = 0, +-1, not 0 -> 0. */
+    private static boolean dipoleAllowed(int twoF, int twoF2) {
+        return Math.abs(twoF - twoF2) <= 2 && !(twoF == 0 && twoF2 == 0);
+    }
+
+    /**
      * The ionisation limit measured from one hyperfine level F of the ground level: the limit above
      * the ground level's hyperfine-free centroid (the atom's, from its quantum-defect set) minus
      * that F level's Casimir shift. The singly charged core of an alkali atom is a closed shell

@@ -309,4 +309,38 @@ class RydbergHyperfineTest {
             assertTrue(e.getMessage().contains(row[1]), e.getMessage());
         }
     }
+    /**
+     * The F-resolved ladder 5s1/2 -> 5p3/2 -> 60s1/2 of Rb-87. The first step F = 2 -> F' = 3 is the D2
+     * centroid 384.2304844685 THz minus the ground F = 2 shift (3/8 of 6834.682610904 MHz) plus the 5p3/2 F' = 3
+     * Casimir shift 9/4 A + B/4 (A = 84.7185 MHz, B = 12.4965 MHz), all from D. A. Steck, Rubidium 87 D Line
+     * Data (revision 2.1.5; from memory). The E1 rules (Delta F = 0, +-1; common practice) leave 10 paths
+     * (I = 3/2: F = 1, 2; F' = 0 to 3; F'' = 1, 2), and each path's two steps add up to the F -> F'' two-photon
+     * frequency whatever F'.
+     */
+    @Test
+    void ladderPathsResolveEveryStepIntoItsFLevels() {
+        List<AlkaliHyperfine.LadderComponent> paths = AlkaliHyperfine.ladderComponents(CONTEXT, RB87,
+                State.parse("5s1/2"), State.parse("5p3/2"), State.parse("60s1/2"));
+        assertEquals(10, paths.size(), paths.toString());
+        AlkaliHyperfine.LadderComponent lock = paths.stream().filter(p -> p.twoFLower() == 4
+                && p.twoFIntermediate() == 6 && p.twoFUpper() == 4).findFirst().orElseThrow();
+        double expected = 384.2304844685e12 - 3.0 / 8 * 6834.682610904e6 + (2.25 * 84.7185 + 12.4965 / 4) * 1e6;
+        assertEquals(expected, lock.firstHertz(), 1e3);
+        for (AlkaliHyperfine.LadderComponent p : paths) {
+            assertTrue(Math.abs(p.twoFLower() - p.twoFIntermediate()) <= 2
+                    && Math.abs(p.twoFIntermediate() - p.twoFUpper()) <= 2, p.toString());
+            for (AlkaliHyperfine.LadderComponent q : paths) {
+                if (q.twoFLower() == p.twoFLower() && q.twoFUpper() == p.twoFUpper()) {
+                    assertEquals(p.firstHertz() + p.secondHertz(), q.firstHertz() + q.secondHertz(), 1.0);
+                }
+            }
+        }
+        // a level without constants is refused, naming it, and so is a step that is not an E1 line
+        ReferenceDataException e = assertThrows(ReferenceDataException.class, () -> AlkaliHyperfine
+                .ladderComponents(CONTEXT, Species.parse("Na-23 I"), State.parse("3s1/2"), State.parse("3p3/2"),
+                        State.parse("30d5/2")));
+        assertTrue(e.getMessage().contains("no hyperfine constants for Na-23 I 30d"), e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> AlkaliHyperfine.ladderComponents(CONTEXT, RB87,
+                State.parse("5s1/2"), State.parse("5p3/2"), State.parse("30f7/2")));
+    }
 }
