@@ -62,8 +62,8 @@ final class LinesCommand implements Callable<Integer> {
 
     @Option(names = "--ladder", paramLabel = "S1,S2,S3",
             description = "Alkali atoms: the two laser wavelengths of a ladder, e.g. \"5s1/2,5p3/2,60s1/2\", between "
-                    + "fine-structure centroids (no hyperfine structure: --hyperfine gives the D-line components' "
-                    + "offsets from the centroid).")
+                    + "fine-structure centroids; with --hyperfine, every F -> F' -> F'' path with each step's "
+                    + "offset from its centroid.")
     String ladder;
 
     @Option(names = "--temperature", paramLabel = "K", defaultValue = "300",
@@ -91,7 +91,8 @@ final class LinesCommand implements Callable<Integer> {
     boolean multiplets;
 
     @Option(names = "--hyperfine",
-            description = "Alkali isotopes: the F -> F' components of the D1 and D2 lines (published A, B and centroids).")
+            description = "Alkali isotopes: the F -> F' components of the D1 and D2 lines (published A, B and "
+                    + "centroids); with --ladder, the ladder's F-resolved paths.")
     boolean hyperfine;
 
     @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA",
