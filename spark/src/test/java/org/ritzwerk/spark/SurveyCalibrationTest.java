@@ -148,6 +148,27 @@ class SurveyCalibrationTest {
             assertEquals(s.medium().spec(), row.getString(5));
         }
 
+        // The next degree's weight reaches apply when it is not null (these neon fits leave it null): with 0.4
+        // written into lamp-1's row, the applied sigmas are the library polynomial's with that weight, and wider
+        // between the lines than without it (DispersionSolution.wavelengthSigmaAt).
+        Dataset<Row> weighted = calibrations.withColumn("higher_degree_weight", org.apache.spark.sql.functions
+                .when(org.apache.spark.sql.functions.col("id").equalTo("lamp-1"), 0.4)
+                .otherwise(org.apache.spark.sql.functions.col("higher_degree_weight")));
+        Row weightedRow = SurveyCalibration.apply(spark.createDataFrame(science.subList(0, 1), Schemas.SCIENCE),
+                weighted).collectAsList().get(0);
+        org.ritzwerk.data.DispersionPolynomial p = saved.get("lamp-1").polynomial();
+        DispersionSolution withWeight = DispersionSolution.of(new org.ritzwerk.data.DispersionPolynomial(p.medium(),
+                p.centrePixel(), p.halfRange(), p.coefficients(), p.covariance(), p.lowestPixel(), p.highestPixel(),
+                p.higherDegreeCoefficients(), p.higherDegreeCovariance(), 0.4));
+        double[] sigmas = doubles(weightedRow.getList(4));
+        assertArrayEquals(withWeight.pixelCentreWavelengthSigmas(Fixtures.PIXELS), sigmas);
+        double[] without = saved.get("lamp-1").pixelCentreWavelengthSigmas(Fixtures.PIXELS);
+        int wider = 0;
+        for (int i = 0; i < sigmas.length; i++) {
+            wider += sigmas[i] > without[i] ? 1 : 0;
+        }
+        assertTrue(wider > 0, "the weight widens some sigma");
+
         // A refused calibration (one bad lamp a night is normal) refuses its spectra in their rows and
         // the others go on (common practice: per-row failures, as calibrate() gives a refused exposure).
         Row dark = out.stream().filter(r -> r.getString(0).equals("dark")).findFirst().orElseThrow();
