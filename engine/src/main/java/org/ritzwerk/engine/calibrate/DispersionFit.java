@@ -228,9 +228,7 @@ public final class DispersionFit {
                     eligible &= d <= USUAL_DEGREE || significantlyBetter(tried[d - 1], candidate, x, pixelSigma,
                             wavelengthNm, wavelengthSigmaNm, use, used, half, weighted);
                     tried[d] = candidate;
-                    int k = d + 1;
-                    double chi = Math.max(candidate.solution.chiSquare(), CHI_FLOOR * used);
-                    criterion[d] = used * Math.log(chi / used) + 2 * k + 2.0 * k * (k + 1) / (used - k - 1);
+                    criterion[d] = aicc(candidate.solution.chiSquare(), used, d + 1); // used >= d + 3
                     if (eligible && (pass == null || criterion[d] < criterion[pass.degree()])) {
                         pass = candidate;
                     }
