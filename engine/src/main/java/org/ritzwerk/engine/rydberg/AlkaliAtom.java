@@ -1278,11 +1278,18 @@ public final class AlkaliAtom {
      */
     public OptionalDouble radiativeLifetimeUncertainty(State state) {
         Objects.requireNonNull(state, "state");
-        AlkaliAtom second = secondModel();
-        if (second == null && published.keySet().stream().noneMatch(pair -> pair.contains(state))) {
+        if (notEstimated(state)) {
             return OptionalDouble.empty();
         }
         return lifetimeUncertainty(state, spontaneousChannels(state), other -> other.radiativeLifetime(state));
+    }
+
+    /**
+     * Whether a lifetime of this state surely has no uncertainty, known without computing its channels: the
+     * atom has no second model and no published element involves the state (every Rydberg state then).
+     */
+    private boolean notEstimated(State state) {
+        return secondModel() == null && published.keySet().stream().noneMatch(pair -> pair.contains(state));
     }
 
     /**
@@ -1299,11 +1306,7 @@ public final class AlkaliAtom {
      * @return the channels with their rates, s^-1
      */
     public List<DecayChannel> blackbodyChannels(State state, double temperatureK) {
-        if (!(temperatureK >= 0 && temperatureK < MAX_BLACK_BODY_TEMPERATURE_K)) {
-            throw new IllegalArgumentException("the black-body temperature must be 0 to below "
-                    + MAX_BLACK_BODY_TEMPERATURE_K + " K (black-body photoionisation is left out), got " + temperatureK
-                    + " K");
-        }
+        checkBlackBodyTemperature(temperatureK);
         List<DecayChannel> channels = new ArrayList<>();
         if (temperatureK == 0) {
             return channels;
@@ -1327,6 +1330,15 @@ public final class AlkaliAtom {
             channels.add(new DecayChannel(state, other, nu, rate));
         }
         return channels;
+    }
+
+    /** Refuses a black-body temperature outside 0 to below {@link #MAX_BLACK_BODY_TEMPERATURE_K}. */
+    private static void checkBlackBodyTemperature(double temperatureK) {
+        if (!(temperatureK >= 0 && temperatureK < MAX_BLACK_BODY_TEMPERATURE_K)) {
+            throw new IllegalArgumentException("the black-body temperature must be 0 to below "
+                    + MAX_BLACK_BODY_TEMPERATURE_K + " K (black-body photoionisation is left out), got " + temperatureK
+                    + " K");
+        }
     }
 
     /**
@@ -1370,11 +1382,11 @@ public final class AlkaliAtom {
      */
     public OptionalDouble effectiveLifetimeUncertainty(State state, double temperatureK) {
         Objects.requireNonNull(state, "state");
-        List<DecayChannel> channels = new ArrayList<>(blackbodyChannels(state, temperatureK)); // checks T first
-        AlkaliAtom second = secondModel();
-        if (second == null && published.keySet().stream().noneMatch(pair -> pair.contains(state))) {
+        checkBlackBodyTemperature(temperatureK);
+        if (notEstimated(state)) {
             return OptionalDouble.empty();
         }
+        List<DecayChannel> channels = new ArrayList<>(blackbodyChannels(state, temperatureK));
         channels.addAll(spontaneousChannels(state));
         return lifetimeUncertainty(state, channels, other -> other.effectiveLifetime(state, temperatureK));
     }
