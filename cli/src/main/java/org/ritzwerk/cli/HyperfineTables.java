@@ -9,7 +9,6 @@ import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hyperfine.HyperfineComponent;
 import org.ritzwerk.engine.hyperfine.ZeemanComponent;
-import org.ritzwerk.engine.hyperfine.ZeemanStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.refdata.AlkaliHyperfine;
 import org.ritzwerk.refdata.DataContext;
@@ -151,16 +150,13 @@ final class HyperfineTables {
 
     /**
      * The note that the components leave out the diamagnetic shift, with its size on each D line at this field:
-     * the difference of the two levels' {@code ZeemanStructure.diamagneticShiftHertz}, each from the model's
+     * {@code AlkaliHyperfine.diamagneticLineShiftHertz} on each D line, each level's from the model's
      * {@code <r^2>}.
      */
     static String diamagneticNote(AlkaliAtom atom, double fieldTesla) {
         State ground = atom.groundState();
-        double shift = ZeemanStructure.diamagneticShiftHertz(atom.expectationBohr(ground, 2), fieldTesla);
-        double d1 = ZeemanStructure.diamagneticShiftHertz(atom.expectationBohr(new State(ground.n(), 1, 1), 2),
-                fieldTesla) - shift;
-        double d2 = ZeemanStructure.diamagneticShiftHertz(atom.expectationBohr(new State(ground.n(), 1, 3), 2),
-                fieldTesla) - shift;
+        double d1 = AlkaliHyperfine.diamagneticLineShiftHertz(atom, ground, new State(ground.n(), 1, 1), fieldTesla);
+        double d2 = AlkaliHyperfine.diamagneticLineShiftHertz(atom, ground, new State(ground.n(), 1, 3), fieldTesla);
         return String.format(java.util.Locale.ROOT, "note: %s: the diamagnetic (B^2) shift is left out of the "
                 + "components: at %s T it moves D1 by about %+.2g Hz and D2 by about %+.2g Hz (e^2 B^2 (2/3) <r^2> / "
                 + "8 m_e for each level, <r^2> of the model's wavefunctions, m-averaged; it grows as B^2)",
