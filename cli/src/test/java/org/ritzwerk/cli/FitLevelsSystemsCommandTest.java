@@ -77,6 +77,15 @@ class FitLevelsSystemsCommandTest {
         }
         assertEquals(0.1, lines.get(0).get("ritz_uncertainty_per_cm").asDouble(), 1e-12);
         assertEquals(0.1, levels(run.out()).get("B").get("uncertainty_per_cm").asDouble(), 1e-12);
+        // a level list would give the loop lines' uncertainties from the levels' covariance, which cannot carry
+        // them: refused naming the line, and no file written
+        Path out = dir.resolve("levels.csv");
+        CliTest.Run list = CliTest.run("fit-levels", file.toString(), "--reference", "A", "--species", "Fe I",
+                "--levels-out", out.toString());
+        assertEquals(2, list.code(), list.err());
+        assertTrue(list.err().contains("line 2 (" + file + ":5): a level list cannot carry its Ritz uncertainty"),
+                list.err());
+        assertFalse(Files.exists(out) || list.err().contains("Exception"), list.err());
     }
 
     @Test

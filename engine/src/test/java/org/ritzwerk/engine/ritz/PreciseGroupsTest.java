@@ -8,6 +8,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.testing.Golden;
 
 /**
@@ -54,6 +55,28 @@ class PreciseGroupsTest {
         assertEquals(RitzException.BAD_VALUE, spread.code());
         assertTrue(spread.getMessage().startsWith("line 2 (line 2): its uncertainty 1.00e-10 cm-1 is more than 1e+10 "
                 + "times smaller than that of line 1 (line 1)"), spread.getMessage());
+    }
+
+    /**
+     * A level list gives a line's uncertainty from the levels' covariance, sqrt(V_uu + V_ll - 2 V_ul), which
+     * loses the digits the fit keeps: within 1e-6 of the fit's (the closed form sqrt(2/3) u2) it is given, beyond
+     * it refused naming the line (before, such fits were refused from a ratio of 1e7 on).
+     */
+    @Test
+    void aLevelListIsRefusedWhereItsCovarianceCannotCarryALinesRitzUncertainty() {
+        Species species = Species.parse("Fe I");
+        LevelOptimum near = LevelOptimizer.defaults().optimize(loop(1, 1e-3));
+        RitzLevels list = near.levels(species);
+        int b = list.indexOf("B");
+        int c = list.indexOf("C");
+        assertEquals(Math.sqrt(2.0 / 3) * 1e-3, list.differenceSigma(c, b), Math.sqrt(2.0 / 3) * 1e-3 * 1e-6);
+        LevelOptimum far = LevelOptimizer.defaults().optimize(loop(1, 1e-7));
+        RitzException e = assertThrows(RitzException.class, () -> far.levels(species));
+        assertEquals(RitzException.SINGULAR, e.code());
+        assertTrue(e.getMessage().startsWith("line 2 (line 2): a level list cannot carry its Ritz uncertainty "
+                + "8.16e-08 cm-1 in double precision"), e.getMessage());
+        assertThrows(RitzException.class, () -> far.absoluteLevels(species));
+        assertThrows(RitzException.class, () -> far.systemLevels(species, 0));
     }
 
     private static MeasuredLines loop(double u1, double u2) {
