@@ -19,8 +19,19 @@ import java.util.Objects;
  * the covariance to each Ritz wavenumber, {@code u^2 = a^T (A^T W A)^-1 a} (JCGM 100:2008, eq. 13);
  * lines that alone determine a level are told apart (our naming and formats).
  *
- * <p>Solved with Apache Commons Math's QR decomposition of the weighted design matrix; the
- * covariance by its Cholesky decomposition of {@code A^T W A}.
+ * <p><b>How it is solved.</b> The weighted design matrix {@code A_w = W^1/2 A} (the unknowns are the levels
+ * not held) is factorised {@code A_w = Q R P^T} by Householder QR with column pivoting, its rows the most
+ * precise lines first ({@link WeightedQr}: the ordering that keeps each loose line's own digits, Powell and Reid
+ * 1969, Cox and Higham 1998, from memory). The energies are its least-squares solution with one step of
+ * iterative refinement; their covariance is {@code P R^-1 R^-T P^T} (no normal matrix {@code A^T W A} is
+ * formed: that would square the condition number, which reaches the spread of the uncertainties); and each
+ * line's Ritz variance is {@code u^2 = a^T (A_w^T A_w)^-1 a = ||R^-T P^T a||^2}, one forward substitution for
+ * its row {@code a = e_upper - e_lower} (a level held drops out), never the difference {@code C_uu + C_ll - 2
+ * C_ul} of the covariance (see the precision paragraph below). Cost, for m lines and p unknowns: O(m p^2) for
+ * the factorisation (the pivot column's norm recomputed at each step), O(p^3) for the covariance, and O(m p^2)
+ * for the Ritz variances (each substitution starts at the first unknown its row touches: about p^2 / 6 on
+ * average), the same order as the factorisation; a downdate after a line left out costs O(p^2) and the
+ * residuals against it O(m).
  *
  * <p><b>Outliers.</b> Each line's residual {@code r_k = sigma_k - sigma_Ritz,k} is compared with
  * its own standard deviation {@code sqrt(u_k^2 - u_Ritz,k^2)}: the normalised residual of weighted
@@ -34,10 +45,16 @@ import java.util.Objects;
  * again, until no kept line exceeds it. A misassigned line drags the levels it touches, so the other
  * lines' residuals are only meaningful once it is out; one line at a time keeps an honest line from
  * being left out with it. Between removals the fit is not redone from scratch but downdated by one
- * line (a rank-one update of the covariance, exact but for rounding); once no line exceeds the
- * threshold the kept lines are fitted from scratch and judged again, so the result is that of a fit
- * of the lines kept. The levels, their covariance, chi^2 and the degrees of freedom come from the
- * lines kept; every line, kept or not, has its residual against that final fit. A line left out is
+ * line (a rank-one update of the covariance, exact but for rounding), as long as the downdated covariance
+ * carries the Ritz variances the next round judges by: no level's variance more than {@value
+ * #DOWNDATE_LIMIT} times the smallest Ritz variance of a kept line in the last fit from scratch (Ritz
+ * variances only grow as lines are left out, so that bounds them all; the differences of the covariance then
+ * lose at most about 1e-10 of themselves). Beyond it (a precise group hung on much looser lines) the lines
+ * kept are fitted from scratch after each line left out, whose Ritz variances and correlations come from the
+ * factorisation. Once no line exceeds the threshold the kept lines are fitted from scratch and judged again,
+ * so the result is that of a fit of the lines kept: the levels, their covariance, chi^2, the degrees of
+ * freedom and every line's Ritz uncertainty come from the lines kept and that final factorisation; every
+ * line, kept or not, has its residual against that final fit. A line left out is
  * flagged {@link LevelOptimum.LineFlag#OUTLIER} ({@link LevelOptimum#leftOut()} in the order they
  * were left out) and its normalised residual is {@code r_k / sqrt(u_k^2 + u_Ritz,k^2)}, a prediction
  * from levels it did not touch; it is not taken back in, even if that later falls within the
@@ -56,23 +73,36 @@ import java.util.Objects;
  * unless {@link #withSeparateSystems} allows them; then each such system is fitted on its own, its
  * energies relative to one of its levels or, where that level's energy is given, absolute (see there).
  *
- * <p><b>Precision of small Ritz uncertainties.</b> The covariance is of the energies above the reference,
- * so the Ritz uncertainty of a line far more precise than the levels it joins (a precise group of levels
- * hung on the reference by a loose line) is the root of a difference of variances (u_level / u_Ritz)^2
- * times larger, and loses about that many parts in 1e16: measured on such a loop (three lines of one
- * uncertainty on a line 1e4, 1e5 and 1e6 times looser) the Ritz uncertainty is off by 1e-8, 2e-6 and 4e-4
- * of itself; from 1e7 it came out 1 to 30 per cent off, or 0. So a fit in which some line's Ritz variance is
- * more than {@value #CANCELLATION_LIMIT} times below its levels' variances is refused as {@link
- * RitzException#SINGULAR}, naming the line (as is a normal matrix that is singular in double precision).
- * Give such a group a reference of its own ({@link #withSeparateSystems}, leaving out the loose line) to
- * keep all its digits.
+ * <p><b>Precision of small Ritz uncertainties.</b> The covariance is of the energies above the reference, so
+ * for a line far more precise than the levels it joins (a precise group of levels hung on the reference by
+ * much looser lines, k times looser) the difference {@code C_uu + C_ll - 2 C_ul} would be of numbers k^2
+ * times larger than the result and lose about that many parts in 1e16 (measured on a loop of three lines
+ * of one uncertainty hung on a line 1e4, 1e5 and 1e6 times looser: 1e-8, 2e-6 and 4e-4 of itself; from 1e7
+ * 1 to 30 per cent, or 0, which such fits were once refused for). The forward substitution does not form
+ * that difference, and with the rows in order of weight the factorisation is that of lines whose weights
+ * are off by a few parts in 1e16 each, which moves a Ritz variance by about as much: measured against the
+ * closed form sqrt(2/3) u of that loop (PreciseGroupsTest, derived there and by sympy) within 4e-15 of
+ * itself for k from 1e4 to 1e8, 1.5e-13 at 1e9 and 9e-13 at 1e10, the largest spread accepted (the error
+ * grows as (1e-16 k)^2: the loose line's rounding reaches the loop at second order), and within 2e-15 on a
+ * network of groups of lines of 2e-9 to 5e-9 cm-1 hung on lines of 0.5 to 10 cm-1 (against mpmath). The
+ * levels' own uncertainties keep their digits the same way (within 2e-15 there). What stays limited is the
+ * rounding of the energies: a Ritz wavenumber {@code E_u - E_l} carries that of energies of the problem's
+ * scale (about 1e-16 of it; the floor of 1e-12 of the scale on uncertainties keeps it near 1e-4 of any), and
+ * a group's common offset, set by the loose lines alone, carries about 1e-16 k of its uncertainty (measured
+ * 1.6e-8 at k = 2.5e8). The covariance the result reports ({@link LevelOptimum#covariance()}) carries each
+ * entry to a few parts in 1e16 of the larger of its variances, so differences taken from it lose the digits
+ * above; a level list made from the result ({@link LevelOptimum#levels}) is refused where they would (see
+ * there). A fit stays refused as {@link RitzException#SINGULAR} only where R itself is numerically
+ * rank-deficient (a diagonal below 2^-52 of the first), which the limits on uncertainties below keep out of
+ * reach for connected systems, and, naming the line, where a line's Ritz variance came out 0 or not finite.
  *
  * <p>Refused with a {@link RitzException}: levels that no chain of lines connects to the
  * reference, unless allowed ({@link RitzException#UNCONNECTED}, naming them and the option); an
  * uncertainty below 1e-12 of the energy scale (the largest energy held, the reference's or an anchor's,
  * plus the largest wavenumber) or more than 1e10 times smaller than the largest ({@link
  * RitzException#BAD_VALUE}, naming the line: double precision does not carry such weights through the
- * fit); a system that is numerically singular though connected ({@link RitzException#SINGULAR}, above); a
+ * fit); a system that is numerically singular though connected ({@link RitzException#SINGULAR}, above: not
+ * met within those limits); a
  * line whose fitted upper level does not lie above its lower level
  * ({@link RitzException#BAD_ASSIGNMENT}, naming the line, both labels and energies: its assignment is
  * reversed or wrong); a level fitted more than 3 of its standard uncertainties below 0, the ground

@@ -219,7 +219,7 @@ public final class LevelOptimum {
     /**
      * @param k line index
      * @return the standard uncertainty of the Ritz wavenumber, cm^-1: {@code ||R^-T P^T a||} from the final
-     *         fit's factorisation (see {@link LevelOptimizer}), to a few parts in 1e13 of itself however much
+     *         fit's factorisation (see {@link LevelOptimizer}), within about 1e-12 of itself however much
      *         more loosely its levels are known (not from {@link #covariance()})
      */
     public double ritzUncertaintyPerCm(int k) {
