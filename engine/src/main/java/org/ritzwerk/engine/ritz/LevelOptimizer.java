@@ -21,14 +21,14 @@ import java.util.Objects;
  *
  * <p><b>How it is solved.</b> The weighted design matrix {@code A_w = W^1/2 A} (the unknowns are the levels
  * not held) is factorised {@code A_w = Q R P^T} by Householder QR with column pivoting, its rows the most
- * precise lines first ({@link WeightedQr}: the ordering that keeps each loose line's own digits, Powell and Reid
- * 1969, Cox and Higham 1998, from memory). The energies are its least-squares solution with one step of
- * iterative refinement; their covariance is {@code P R^-1 R^-T P^T} (no normal matrix {@code A^T W A} is
- * formed: that would square the condition number, which reaches the spread of the uncertainties); and each
- * line's Ritz variance is {@code u^2 = a^T (A_w^T A_w)^-1 a = ||R^-T P^T a||^2}, one forward substitution for
- * its row {@code a = e_upper - e_lower} (a level held drops out), never the difference {@code C_uu + C_ll - 2
- * C_ul} of the covariance (see the precision paragraph below). Cost, for m lines and p unknowns: O(m p^2) for
- * the factorisation (the pivot column's norm recomputed at each step), O(p^3) for the covariance, and O(m p^2)
+ * precise lines first (the ordering that keeps each loose line's own digits: Powell and Reid 1969, Cox and
+ * Higham 1998, from memory). The energies are its least-squares solution with one step of iterative
+ * refinement; their covariance is {@code P R^-1 R^-T P^T} (no normal matrix {@code A^T W A} is formed: that
+ * would square the condition number, which reaches the spread of the uncertainties); and each line's Ritz
+ * variance is {@code u^2 = a^T (A_w^T A_w)^-1 a = ||R^-T P^T a||^2}, one forward substitution for its row
+ * {@code a = e_upper - e_lower} (a level held drops out), never the difference {@code C_uu + C_ll - 2 C_ul}
+ * of the covariance (see the precision paragraph below). Cost, for m lines and p unknowns: O(m p^2) for the
+ * factorisation (the pivot column's norm recomputed at each step), O(p^3) for the covariance, and O(m p^2)
  * for the Ritz variances (each substitution starts at the first unknown its row touches: about p^2 / 6 on
  * average), the same order as the factorisation; a downdate after a line left out costs O(p^2) and the
  * residuals against it O(m).
