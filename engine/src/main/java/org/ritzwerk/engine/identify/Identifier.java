@@ -12,7 +12,7 @@ import java.util.Objects;
  * <p><b>Candidates.</b> A line is a candidate for a peak when their vacuum wavelengths differ by
  * at most the {@link Tolerance}'s half-width h; a blend with declared components is seen at the
  * nearest of its centroid (unresolved) and the centroids of the groups of components that lie
- * more than 2 h apart (resolved, as far as the peak's precision tells them apart), and its
+ * more than h apart (resolved, as far as the peak's precision tells them apart), and its
  * residual r is taken from there ({@link LineCatalog#nearestPosition}). Peaks and lines are walked together
  * in wavelength order (a sorted merge), so finding every candidate costs O(N + M + candidates)
  * after sorting the peaks (skipped when they come sorted).

@@ -73,6 +73,32 @@ class ResolvedComponentsTest {
     }
 
     @Test
+    void aGroupBeyondOneToleranceFromTheRestIsItsOwnPosition() {
+        // a review's case: peaks of 5 pm (tolerance 5 sigma, 25 pm) on the main group and on the
+        // J = 0 component 34 pm away; the groups parted only at gaps over 2 h = 50 pm, so the far
+        // peak, 30 pm (6 sigma) from the centroid, was left unexplained
+        LineCatalog catalog = triplet();
+        double[] components = catalog.componentPositions(0);
+        Arrays.sort(components);
+        double farthest = components[components.length - 1];
+        double main = components[0];
+        double sigma = 5e-12;
+        assertTrue(farthest - main > 5 * sigma && farthest - main < 10 * sigma, "between h and 2 h: " + (farthest - main));
+        assertEquals(3, catalog.positions(0, 5 * sigma).length, "the centroid and two groups");
+        Identification result = Identifier.of(Tolerance.kSigma(5)).identify(peaks(sigma, main, farthest), catalog);
+        for (int i = 0; i < 2; i++) {
+            assertEquals(Identification.MATCHED, result.status(i), "peak " + i);
+            assertTrue(Math.abs(result.residual(i)) <= sigma, "at its own group: " + result.residual(i));
+        }
+        assertEquals(farthest, result.matchedPosition(1), 1e-18);
+        // the far component alone, and a peak at the centroid, are matched too
+        assertEquals(Identification.MATCHED,
+                Identifier.of(Tolerance.kSigma(5)).identify(peaks(sigma, farthest), catalog).status(0));
+        assertEquals(Identification.MATCHED,
+                Identifier.of(Tolerance.kSigma(5)).identify(peaks(sigma, catalog.wavelength(0)), catalog).status(0));
+    }
+
+    @Test
     void aPeakBetweenTheComponentsIsNotExplainedByTheSpanAlone() {
         LineCatalog catalog = triplet();
         double[] components = catalog.componentPositions(0);
