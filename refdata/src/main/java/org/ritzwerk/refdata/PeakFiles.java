@@ -26,8 +26,8 @@ import org.ritzwerk.quantity.Unit;
  * position,uncertainty,intensity,width,note
  * 656.281,0.004,1520,0.09,
  * </pre>
- * {@code position} is required; {@code uncertainty} (standard uncertainty in the position unit),
- * {@code intensity}, {@code width} (FWHM in the position unit) and {@code note} are optional.
+ * {@code position} is required; {@code uncertainty} (standard uncertainty in the position unit, below the
+ * position), {@code intensity}, {@code width} (FWHM in the position unit) and {@code note} are optional.
  * In JSON the rows are under {@code peaks}. Stateless and thread-safe.
  */
 public final class PeakFiles {
@@ -238,6 +238,12 @@ public final class PeakFiles {
                 p.rowProblem(row, "position", "data.not-positive", "position must be positive, got 0");
             }
             uncertainties[k] = p.number(row, "uncertainty", false);
+            if (uncertainties[k] >= positions[k] && positions[k] > 0) {
+                // a standard uncertainty as large as the position itself places the peak nowhere (a
+                // review's 1e308 matched a line 170 nm away); most likely a unit or column slip
+                p.rowProblem(row, "uncertainty", "data.out-of-range", "uncertainty must be below the position ("
+                        + positions[k] + "), got " + uncertainties[k]);
+            }
             intensities[k] = p.number(row, "intensity", false);
             widths[k] = p.number(row, "width", false);
             p.text(row, "note");
@@ -257,7 +263,8 @@ public final class PeakFiles {
      * @param version    the file's version
      * @return the file's text
      * @throws IllegalArgumentException when a header value spans lines, a position is not finite and
-     *         positive, or an uncertainty, intensity or width is negative or infinite (naming the peak)
+     *         positive, an uncertainty is not below its position (as the reader refuses it), or an
+     *         uncertainty, intensity or width is negative or infinite (naming the peak)
      */
     public static String writeCsv(Peaks peaks, String title, String source, String provenance, String version) {
         Map<String, String> header = new LinkedHashMap<>();
@@ -285,6 +292,10 @@ public final class PeakFiles {
             if (!(positions[k] > 0) || Double.isInfinite(positions[k])) {
                 throw new IllegalArgumentException("peak " + k + ": position must be finite and positive, got "
                         + positions[k]);
+            }
+            if (uncertainties[k] >= positions[k]) {
+                throw new IllegalArgumentException("peak " + k + ": uncertainty must be below the position ("
+                        + positions[k] + "), got " + uncertainties[k]);
             }
             rows.add(new String[] {Double.toString(positions[k]), number(k, "uncertainty", uncertainties[k]),
                 number(k, "intensity", intensities[k]), number(k, "width", widths[k]), ""});

@@ -161,6 +161,8 @@ final class TabularFiles {
         private int jsonEntries;
         /** The most rows read. */
         int maxRows = MAX_ROWS;
+        /** Whether the CSV text is empty or blank: then {@link #throwIfAny} reports that alone. */
+        boolean emptyFile;
 
         Parsed(Spec spec, String source, String text, RowSink sink) {
             this.spec = spec;
@@ -223,6 +225,12 @@ final class TabularFiles {
 
         /** Throws every problem, in file order (line, then column), if there is any. */
         void throwIfAny() {
+            if (emptyFile) {
+                // one problem, not one per missing header line and the missing column names
+                problems.clear();
+                problem(1, 0, "data.empty", "the file is empty (a " + spec.format() + " file holds its header"
+                        + " lines, a row of column names and the rows)", "");
+            }
             if (!problems.isEmpty()) {
                 List<DataProblem> ordered = new ArrayList<>(problems);
                 ordered.sort(java.util.Comparator.comparingInt(DataProblem::line).thenComparingInt(DataProblem::column));
@@ -562,6 +570,7 @@ final class TabularFiles {
      */
     static Parsed parseCsv(Spec spec, String text, String source, RowSink sink) {
         Parsed p = new Parsed(spec, source, text, sink);
+        p.emptyFile = text.isBlank();
         int lineNumber = readHeader(p, p::raw, p.lineCount());
         try (JsonParser rows = CSV_ROWS.createParser(ObjectReadContext.empty(), text)) {
             readRows(p, rows, lineNumber);
@@ -1059,11 +1068,13 @@ final class TabularFiles {
         }
         Map<String, Object> values = new HashMap<>();
         boolean ok = true;
+        // which entry, as the row problems say it (a file on one line has every entry at line 1)
+        String where = "entry " + entry + " of '" + p.spec.arrayKey() + "': ";
         for (var property : node.properties()) {
             String key = property.getKey();
             JsonNode value = property.getValue();
             if (!p.spec.columns().contains(key)) {
-                p.problem(line, column, "data.unknown-field", "unknown field '" + key + "'; known: "
+                p.problem(line, column, "data.unknown-field", where + "unknown field '" + key + "'; known: "
                         + String.join(", ", p.spec.columns()), raw);
                 ok = false;
             } else if (value.isNull()) {
@@ -1073,13 +1084,15 @@ final class TabularFiles {
                 // then reported; asDouble() would throw.
                 values.put(key, value.numberValue().doubleValue());
             } else if (value.isString() && p.spec.numericColumns().contains(key)) {
-                p.problem(line, column, "data.wrong-type", "field '" + key + "' must be a JSON number, got the string \""
+                p.problem(line, column, "data.wrong-type", where + "field '" + key + "' must be a JSON number, got the"
+                        + " string \""
                         + value.asString() + "\"", raw);
                 ok = false;
             } else if (value.isString()) {
                 values.put(key, value.asString().isEmpty() ? null : value.asString());
             } else {
-                p.problem(line, column, "data.wrong-type", "field '" + key + "' must be a number, a string or null, got "
+                p.problem(line, column, "data.wrong-type", where + "field '" + key + "' must be a number, a string or"
+                        + " null, got "
                         + value.getNodeType().name().toLowerCase(Locale.ROOT), raw);
                 ok = false;
             }

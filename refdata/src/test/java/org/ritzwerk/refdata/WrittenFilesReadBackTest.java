@@ -55,7 +55,9 @@ class WrittenFilesReadBackTest {
                     for (int k = 0; k < n; k++) {
                         // air wavelengths where the standard-air model takes them (200 nm to 2.5 um; outside they are refused)
                         positions[k] = wavelength ? 200.5 + 2000 * r.nextDouble() : anyDouble(r, true);
-                        sigmas[k] = r.nextInt(4) == 0 ? Double.NaN : anyDouble(r, true);
+                        // below the position, as the reader requires
+                        sigmas[k] = r.nextInt(4) == 0 ? Double.NaN
+                                : Math.min(anyDouble(r, true), Math.nextDown(positions[k]));
                         intensities[k] = r.nextInt(4) == 0 ? Double.NaN : r.nextInt(8) == 0 ? 0.0 : anyDouble(r, true);
                         widths[k] = r.nextInt(4) == 0 ? Double.NaN : anyDouble(r, true);
                     }
