@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.ritzwerk.medium.AirModels;
 import org.ritzwerk.quantity.Quantity;
+import org.ritzwerk.quantity.QuantityParseException;
 import org.ritzwerk.quantity.QuantityText;
 import org.ritzwerk.quantity.Target;
 import org.ritzwerk.quantity.Wavelength;
@@ -28,7 +29,8 @@ import tools.jackson.databind.node.ObjectNode;
                 + "temperatures.",
                 "",
                 "A quantity is a number, an optional uncertainty, a unit and, for a wavelength, its "
-                + "medium: 656.279 nm air 656.28(2) nm 656.28 +- 0.02 nm vacuum 1.8886 eV Units: nm um "
+                + "medium, given as one argument (in quotes when it has spaces): \"656.279 nm air\", "
+                + "\"656.28(2) nm\", \"656.28 +- 0.02 nm vacuum\", \"1.8886 eV\". Units: nm um "
                 + "Angstrom m cm-1 m-1 Hz kHz MHz GHz THz eV meV J K. A wavelength without a medium is in "
                 + "vacuum. 'air' is standard air (Morton 2000); "
                 + "air(ciddor1996:T=20C,p=101325Pa,RH=40%%,CO2=450ppm) is Ciddor 1996 at those conditions. "
@@ -84,9 +86,9 @@ final class ConvertCommand implements Callable<Integer> {
         }
         List<String> inputs = new ArrayList<>();
         List<Quantity> values = new ArrayList<>();
-        for (String quantity : quantities) {
-            inputs.add(quantity);
-            values.add(text.parse(quantity));
+        for (int i = 0; i < quantities.size(); i++) {
+            inputs.add(quantities.get(i));
+            values.add(parseArgument(text, i));
         }
         if (input != null) {
             for (QuantityListReader.Entry entry : readList(text, input)) {
@@ -116,6 +118,43 @@ final class ConvertCommand implements Callable<Integer> {
             }
         }
         return 0;
+    }
+
+    /**
+     * The i-th QUANTITY argument; a refusal of a bare number or of a bare unit or medium word (the shell split
+     * {@code 656.28 nm} or {@code --to nm air} at the space) says to quote the whole quantity or target.
+     */
+    private Quantity parseArgument(QuantityText text, int i) {
+        String given = quantities.get(i);
+        try {
+            return text.parse(given);
+        } catch (QuantityParseException e) {
+            String word = given.strip();
+            boolean bareNumber = e.code().equals(QuantityParseException.MISSING_UNIT);
+            boolean bareWord = e.code().equals(QuantityParseException.NO_NUMBER) && !word.contains(" ")
+                    && isTargetWord(text, word);
+            if (!bareNumber && !bareWord) {
+                throw e;
+            }
+            String unit = i + 1 < quantities.size() && isTargetWord(text, quantities.get(i + 1).strip())
+                    ? quantities.get(i + 1).strip() : "nm";
+            throw new OptionException(e.getMessage() + (bareNumber
+                    ? "; give the number and its unit as one argument, in quotes: \"" + word + " " + unit + "\""
+                    : "; '" + word + "' reads as a unit or medium: quote a quantity or a --to target that has a"
+                            + " space, as in \"656.28 nm air\" or --to \"nm air\""), e);
+        }
+    }
+
+    private static boolean isTargetWord(QuantityText text, String word) {
+        if (word.toLowerCase(java.util.Locale.ROOT).startsWith("air") || word.equalsIgnoreCase("vacuum")) {
+            return true;
+        }
+        try {
+            text.parseTarget(word);
+            return true;
+        } catch (QuantityParseException e) {
+            return false;
+        }
     }
 
     private static List<QuantityListReader.Entry> readList(QuantityText text, Path file) {

@@ -64,7 +64,7 @@ final class LevelsCommand implements Callable<Integer> {
                     + "(0.1216 s in H); other M1, E2 and two-photon decays are left out. Alkali atoms also get "
                     + "'u lifetime s': the published dipole elements' uncertainty and, for computed elements, the "
                     + "spread between the Coulomb approximation and the model potential (a model-spread estimate; "
-                    + "about 6 to 8 % for s and d, 22 % for Rydberg p states).")
+                    + "about 6 to 8 %% for s and d, 22 %% for Rydberg p states).")
     boolean lifetimes;
 
     @Option(names = "--l-max", paramLabel = "L", defaultValue = "3",

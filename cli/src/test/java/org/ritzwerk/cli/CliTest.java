@@ -102,6 +102,28 @@ class CliTest {
     }
 
     @Test
+    void aQuantityOrTargetSplitByTheShellSaysToQuoteIt() {
+        // before: "cannot read "656.28" (column 7): no unit after the number; known units: ..." and, for --to nm air,
+        // "cannot read "air" (column 1): expected a number", neither saying that the space split the argument
+        Run number = run("convert", "656.28", "nm", "--to", "eV");
+        assertEquals(2, number.code());
+        assertTrue(number.err().contains("no unit after the number")
+                && number.err().contains("give the number and its unit as one argument, in quotes: \"656.28 nm\""),
+                number.err());
+        Run medium = run("convert", "656.28 nm", "--to", "nm", "air");
+        assertEquals(2, medium.code());
+        assertTrue(medium.err().contains("'air' reads as a unit or medium: quote a quantity or a --to target"),
+                medium.err());
+        Run unit = run("convert", "656.28 nm air", "--to", "nm vacuum", "THz");
+        assertEquals(2, unit.code());
+        assertTrue(unit.err().contains("'THz' reads as a unit or medium"), unit.err());
+        Run word = run("convert", "656.28 nm", "hello", "--to", "THz");
+        assertEquals(2, word.code());
+        assertTrue(word.err().contains("cannot read \"hello\"") && !word.err().contains("reads as a unit"), word.err());
+        assertEquals(0, run("convert", "656.28 nm", "--to", "THz").code());
+    }
+
+    @Test
     void badInputGivesOneClearLineAndExitCode2() {
         Run unit = run("convert", "656.28 furlongs", "--to", "nm");
         assertEquals(2, unit.code());

@@ -55,21 +55,37 @@ class FitLevelsSystemsCommandTest {
     }
 
     /**
-     * A connected system that double precision cannot solve (a loop of lines 1e7 times more precise than the
-     * one line joining it to the reference: the library's LevelOptimizerTest) is refused with its own message
-     * and file name, and without the hint for unconnected levels, which would not help.
+     * A loop of lines 1e7 times more precise than the one line joining it to the reference (the library's
+     * PreciseGroupsTest), refused before as numerically singular, is fitted: each loop line's Ritz uncertainty
+     * is sqrt(2/3) of the loop lines' 1e-8 cm-1 (the least-squares solution of a loop of equal weights, derived
+     * there and checked with sympy), and the loose line alone sets B, so B keeps its 0.1 cm-1.
      */
     @Test
-    void aNumericallySingularSystemIsRefusedWithoutTheHintForUnconnectedLevels(@TempDir Path dir)
-            throws IOException {
+    void aPreciseLoopOnALooseLineIsFittedWithItsRitzUncertainties(@TempDir Path dir) throws IOException {
         Path file = dir.resolve("loop.csv");
         Files.writeString(file, "# ritzwerk-measured-lines 1\n# position-unit: cm-1\nposition,uncertainty,upper,lower\n"
                 + "100,0.1,B,A\n50,1e-8,C,B\n25,1e-8,D,C\n75.000000003,1e-8,D,B\n");
-        CliTest.Run run = CliTest.run("fit-levels", file.toString(), "--reference", "A");
-        assertEquals(2, run.code(), run.err());
-        assertTrue(run.err().contains(file + ": line 2 (" + file + ":5): double precision cannot give its Ritz "
-                + "uncertainty"), run.err());
-        assertFalse(run.err().contains("--separate-systems") || run.err().contains("Exception"), run.err());
+        CliTest.Run run = CliTest.run("fit-levels", file.toString(), "--reference", "A", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        assertFalse(run.err().contains("Exception"), run.err());
+        List<JsonNode> lines = FitLevelsCommandTest.rows(run.out(), "line");
+        assertEquals(4, lines.size());
+        for (int k = 1; k <= 3; k++) {
+            double u = lines.get(k).get("ritz_uncertainty_per_cm").asDouble();
+            assertEquals(Math.sqrt(2.0 / 3) * 1e-8, u, 1e-9 * Math.sqrt(2.0 / 3) * 1e-8, lines.get(k).toString());
+            assertEquals("fitted", lines.get(k).get("flag").asString());
+        }
+        assertEquals(0.1, lines.get(0).get("ritz_uncertainty_per_cm").asDouble(), 1e-12);
+        assertEquals(0.1, levels(run.out()).get("B").get("uncertainty_per_cm").asDouble(), 1e-12);
+        // a level list would give the loop lines' uncertainties from the levels' covariance, which cannot carry
+        // them: refused naming the line, and no file written
+        Path out = dir.resolve("levels.csv");
+        CliTest.Run list = CliTest.run("fit-levels", file.toString(), "--reference", "A", "--species", "Fe I",
+                "--levels-out", out.toString());
+        assertEquals(2, list.code(), list.err());
+        assertTrue(list.err().contains("line 2 (" + file + ":5): a level list cannot carry its Ritz uncertainty"),
+                list.err());
+        assertFalse(Files.exists(out) || list.err().contains("Exception"), list.err());
     }
 
     @Test

@@ -46,6 +46,35 @@ class HelpTextTest {
         assertTrue(findings.isEmpty(), String.join("\n", findings));
     }
 
+    /**
+     * picocli formats every help text as a format string: a bare '%' (as in "8 % for s") made it print
+     * "[picocli WARN] Could not format ..." three times on every {@code levels --help} and show the
+     * text unformatted. Every command's help renders without a warning.
+     */
+    @Test
+    void everyHelpRendersWithoutAPicocliWarning() {
+        List<CommandSpec> commands = new ArrayList<>();
+        collect(new CommandLine(new RitzwerkCommand()).getCommandSpec(), commands);
+        java.io.PrintStream err = System.err;
+        java.io.ByteArrayOutputStream captured = new java.io.ByteArrayOutputStream();
+        List<String> findings = new ArrayList<>();
+        try {
+            System.setErr(new java.io.PrintStream(captured, true, java.nio.charset.StandardCharsets.UTF_8));
+            for (CommandSpec command : commands) {
+                captured.reset();
+                String help = command.commandLine().getUsageMessage();
+                String warned = captured.toString(java.nio.charset.StandardCharsets.UTF_8);
+                if (warned.contains("WARN") || help.contains("%n")) {
+                    findings.add(command.qualifiedName() + ": " + warned.lines().findFirst().orElse("%n in the text"));
+                }
+            }
+        } finally {
+            System.setErr(err);
+        }
+        assertTrue(commands.size() >= 9, "found the commands: " + commands.size());
+        assertTrue(findings.isEmpty(), String.join("\n", findings));
+    }
+
     @Test
     void theCheckFindsACutSentence() {
         List<String> findings = new ArrayList<>();
@@ -53,6 +82,7 @@ class HelpTextTest {
             "function. Default: 30."});
         paragraphs(findings, "y", new String[] {"One paragraph.", "", "Another one (with a note)."});
         assertTrue(findings.size() == 1 && findings.get(0).startsWith("x:"), findings.toString());
+
     }
 
     private static void collect(CommandSpec spec, List<CommandSpec> into) {

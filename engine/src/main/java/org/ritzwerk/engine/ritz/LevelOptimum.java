@@ -2,6 +2,7 @@ package org.ritzwerk.engine.ritz;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.Objects;
 import java.util.OptionalDouble;
 import java.util.OptionalInt;
@@ -97,6 +98,9 @@ public final class LevelOptimum {
         }
     }
 
+    /** The relative error of a Ritz uncertainty from the covariance beyond which a level list is refused. */
+    static final double CARRIED = 1e-6;
+
     private final MeasuredLines problem;
     private final double[] energy;
     private final double[][] covariance;
@@ -186,6 +190,12 @@ public final class LevelOptimum {
     }
 
     /**
+     * The covariance of the energies, from the factorisation of the final fit ({@code P R^-1 R^-T P^T}, see
+     * {@link LevelOptimizer}): each entry carries a few parts in 1e16 of the larger of its two variances, so a
+     * difference of entries, such as the variance of a line joining two levels, loses the ratio of the levels'
+     * variances to it (a precise group of levels hung on the reference by much looser lines). Take lines'
+     * uncertainties from {@link #ritzUncertaintyPerCm}, which keeps them.
+     *
      * @return the covariance of the energies, cm^-2, in the order of {@link #levelLabels()} (a copy); 0
      *         between levels of different systems (each system fitted on its own, an anchor independent of
      *         the lines), relative to the reference within a floating system
@@ -208,7 +218,9 @@ public final class LevelOptimum {
 
     /**
      * @param k line index
-     * @return the standard uncertainty of the Ritz wavenumber, cm^-1, from the covariance
+     * @return the standard uncertainty of the Ritz wavenumber, cm^-1: {@code ||R^-T P^T a||} from the final
+     *         fit's factorisation (see {@link LevelOptimizer}), within about 1e-12 of itself however much
+     *         more loosely its levels are known (not from {@link #covariance()})
      */
     public double ritzUncertaintyPerCm(int k) {
         return ritzSigma[k];
@@ -284,6 +296,9 @@ public final class LevelOptimum {
      *         anchors' included
      * @throws RitzException ({@link RitzException#BAD_VALUE}) when a level came out below 0, i.e. below
      *         the ground level (the reference held was not the ground level, or at the wrong energy);
+     *         ({@link RitzException#SINGULAR}) naming a measured line whose Ritz uncertainty the levels'
+     *         covariance gives off by more than {@value #CARRIED} of itself (a precise group hung on the
+     *         reference by much looser lines: see {@link #covariance()});
      *         ({@link RitzException#UNCONNECTED}) when a system floats: its energies are relative, so lines
      *         between it and another system cannot be predicted ({@link #absoluteLevels}, {@link #systemLevels})
      */
@@ -307,7 +322,8 @@ public final class LevelOptimum {
      * @param species the species the levels belong to
      * @return the levels of the main and anchored systems with their covariance (those of floating systems
      *         left out: lines to them cannot be predicted)
-     * @throws RitzException ({@link RitzException#BAD_VALUE}) when a level came out below 0
+     * @throws RitzException ({@link RitzException#BAD_VALUE}) when a level came out below 0;
+     *         ({@link RitzException#SINGULAR}) as for {@link #levels}
      */
     public RitzLevels absoluteLevels(Species species) {
         boolean[] take = new boolean[systems.size()];
@@ -327,7 +343,8 @@ public final class LevelOptimum {
      * @return its levels with their covariance
      * @throws IndexOutOfBoundsException for an index not in {@link #systems()}
      * @throws RitzException ({@link RitzException#BAD_VALUE}) when a level came out below 0 (below the
-     *         ground level, or in a floating system below its reference: name the lowest level as reference)
+     *         ground level, or in a floating system below its reference: name the lowest level as reference);
+     *         ({@link RitzException#SINGULAR}) as for {@link #levels}
      */
     public RitzLevels systemLevels(Species species, int index) {
         Objects.checkIndex(index, systems.size());
@@ -362,7 +379,38 @@ public final class LevelOptimum {
                 v[a][c] = covariance[in.get(a)][in.get(c)];
             }
         }
+        checkCarried(take);
         return b.build().withCovariance(v);
+    }
+
+    /**
+     * Refuses a level list whose covariance cannot carry the Ritz uncertainty of a measured line between its
+     * levels: a level list gives a line's uncertainty as {@code sqrt(V_uu + V_ll - 2 V_ul)}, a difference that
+     * loses about {@code (V_uu + V_ll) / u_Ritz^2} parts in 1e16 (a precise group of levels hung on the
+     * reference by much looser lines: 1e-8 of itself when they are 1e4 times looser, 1 to 30 per cent or 0 from
+     * 1e7), where {@link #ritzUncertaintyPerCm} keeps its digits. Off by more than {@value #CARRIED} of itself,
+     * the list is refused, naming the line.
+     */
+    private void checkCarried(boolean[] take) {
+        for (int k = 0; k < ritz.length; k++) {
+            int u = problem.upper(k);
+            int l = problem.lower(k);
+            if (take != null && !(take[system[u]] && take[system[l]])) {
+                continue;
+            }
+            double fromCovariance = Math.sqrt(Math.max(0, covariance[u][u] + covariance[l][l] - 2 * covariance[u][l]));
+            if (!(Math.abs(fromCovariance - ritzSigma[k]) <= CARRIED * ritzSigma[k])) {
+                throw new RitzException(RitzException.SINGULAR, String.format(Locale.ROOT, "line %d (%s): "
+                        + "a level list cannot carry its Ritz uncertainty %.3g cm-1 in double precision: from the "
+                        + "levels' covariance it comes out %.3g cm-1, since the levels it joins, '%s' and '%s', are "
+                        + "known %.1e times less precisely (a precise group of levels joined to the reference only by "
+                        + "much looser lines); take the Ritz uncertainties from the fit, or fit that group as a "
+                        + "system of its own (leave out the loose lines joining it and fit separate systems) for a "
+                        + "level list", k + 1, problem.name(k), ritzSigma[k], fromCovariance,
+                        problem.levels().get(u), problem.levels().get(l),
+                        Math.sqrt(Math.max(covariance[u][u], covariance[l][l])) / ritzSigma[k]));
+            }
+        }
     }
 
     @Override
