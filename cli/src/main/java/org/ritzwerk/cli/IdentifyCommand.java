@@ -108,6 +108,12 @@ final class IdentifyCommand implements Callable<Integer> {
                     + "g A alone.")
     Double excitationTemperature;
 
+    @Option(names = "--strength-weight", paramLabel = "W",
+            description = "How much the lines' expected strengths count as priors, 0 to 1 (default: 0.5): 1 when "
+                    + "each line shows a peak about in proportion to its strength (a faint spectrum near the "
+                    + "detection limit), 0 to match by position alone (every line above the noise shows).")
+    Double strengthWeight;
+
     @Option(names = "--plasma",
             description = "Instead of the per-peak table, the plasma diagnostics the identified lines allow: the "
                     + "excitation temperature of each --species from a Boltzmann plot of its matched multiplets "
@@ -145,7 +151,11 @@ final class IdentifyCommand implements Callable<Integer> {
         if (tol.kind() == Tolerance.Kind.K_SIGMA) {
             refuseZeroUncertainties(read, peaksFile);
         }
-        IdentificationSearch search = IdentificationSearch.of(Identifier.of(tol));
+        Identifier identifier = Identifier.of(tol);
+        if (strengthWeight != null) {
+            identifier = identifier.withStrengthWeight(strengthWeight);
+        }
+        IdentificationSearch search = IdentificationSearch.of(identifier);
         if (searchVelocity != null) {
             search = search.withVelocitySearch(searchVelocity * 1e3);
         }
@@ -191,6 +201,9 @@ final class IdentifyCommand implements Callable<Integer> {
         if (excitationTemperature != null) {
             OptionRules.range("--excitation-temperature", excitationTemperature, 0, false, 1e9,
                     "a temperature above 0 and at most 1e9 K");
+        }
+        if (strengthWeight != null) {
+            OptionRules.range("--strength-weight", strengthWeight, 0, true, 1, "a weight from 0 to 1");
         }
         if (plasma && components) {
             throw new OptionException("--plasma works on n -> n' multiplets; leave out --components");

@@ -213,6 +213,40 @@ class IdentifyCommandTest {
                 "--instrument-fwhm", "0.1").err().contains("not both"));
     }
 
+    /**
+     * --strength-weight: a peak 2 sigma from a line and 1.3 sigma from a line of the same species
+     * 100 times weaker (costs 2 against 0.89 + w ln 100) takes the strong line, unflagged at
+     * weight 1 (odds 33 to 1) and flagged at the default 1/2 (3.3 to 1), and the weak line by
+     * position alone (weight 0). Invented lines.
+     */
+    @Test
+    void theStrengthWeightDecidesBetweenAStrongLineAndANearerWeakOne(@TempDir Path dir) throws IOException {
+        Path lines = dir.resolve("two.csv");
+        Files.writeString(lines, "# ritzwerk-lines 1\n# id: invented-two\n# title: t\n# source: invented\n"
+                + "# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: air\n"
+                + "species,position,intensity\nKr I,500.000,100\nKr I,500.010,1\n", StandardCharsets.UTF_8);
+        Path peaks = dir.resolve("one.csv");
+        Files.writeString(peaks, HEADER + "position,uncertainty\n500.006,0.003\n", StandardCharsets.UTF_8);
+        String strong = "\"invented-two 500.0 nm air\"";
+        String weak = "\"invented-two 500.01 nm air\"";
+        for (String[] c : new String[][] {{null, "ambiguous", strong}, {"1", "matched", strong},
+            {"0.5", "ambiguous", strong}, {"0", "ambiguous", weak}}) {
+            List<String> args = new ArrayList<>(List.of("identify", peaks.toString(), "--lines", lines.toString(),
+                    "--format", "csv"));
+            if (c[0] != null) {
+                args.addAll(List.of("--strength-weight", c[0]));
+            }
+            CliTest.Run run = CliTest.run(args.toArray(new String[0]));
+            assertEquals(0, run.code(), run.err());
+            String row = run.out().lines().skip(1).findFirst().orElseThrow();
+            assertTrue(row.contains("," + c[1] + ",\"Kr I\"," + c[2] + ","), c[0] + ": " + row);
+        }
+        CliTest.Run bad = CliTest.run("identify", peaks.toString(), "--lines", lines.toString(), "--strength-weight",
+                "1.5");
+        assertEquals(2, bad.code());
+        assertTrue(bad.err().contains("--strength-weight"), bad.err());
+    }
+
     @Test
     void theCommandGivesWhatTheLibraryJobGives(@TempDir Path dir) throws IOException {
         // Invented peaks: four Balmer multiplets of the engine moved by 25 km/s, in air, and a stray peak.

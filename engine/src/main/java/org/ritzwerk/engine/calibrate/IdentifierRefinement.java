@@ -118,7 +118,9 @@ final class IdentifierRefinement {
         }
         LineCatalog built = catalog.build();
         Tolerance window = widens ? Tolerance.kSigma(3) : Tolerance.absolute(3 * floor * 1e-9);
-        Identification id = Identifier.of(window).identify(peakList, built);
+        // the full strength prior, as this refinement was tuned and measured with (lamp lines show as their
+        // intensities say); identification's default tempers it
+        Identification id = Identifier.of(window).withStrengthWeight(1).identify(peakList, built);
         int[] peakIndex = new int[n];
         int[] lineIndex = new int[n];
         int m = 0;

@@ -120,7 +120,7 @@ class AssignmentOptimalityTest {
             used[j] = !lines.isBlend(j);
             assigned[i] = j;
             search(i + 1, peaks, lines, tolerance, used, assigned, matches + 1,
-                    cost + 0.5 * z * z - Math.log(lines.strength(j)), best);
+                    cost + 0.5 * z * z - Identifier.DEFAULT_STRENGTH_WEIGHT * Math.log(lines.strength(j)), best);
             assigned[i] = -1;
             used[j] = false;
         }

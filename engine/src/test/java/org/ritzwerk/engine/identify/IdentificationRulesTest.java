@@ -242,7 +242,8 @@ class IdentificationRulesTest {
         assertEquals(0.26e-9, gap, 0.02e-9);
         PeakList peaks = PeakList.ofVacuumMetres(
                 new double[] {lines.wavelength(helium), lines.wavelength(alpha) + gap}, null);
-        Identifier identifier = Identifier.of(Tolerance.absolute(0.5e-9));
+        // the full strength prior (weight 1), under which the multiplet is cheapest for both peaks
+        Identifier identifier = Identifier.of(Tolerance.absolute(0.5e-9)).withStrengthWeight(1);
         Identification result = identifier.identify(peaks, lines);
         assertEquals(helium, result.line(0), "the He II line explains its peak");
         assertEquals(alpha, result.line(1));
@@ -274,20 +275,45 @@ class IdentificationRulesTest {
 
     /**
      * Crowded scenes: four invented species with 50 lines each in a 0.8 nm band (lines 4 pm
-     * apart on average, four peak uncertainties, many within one or two), relative strengths log-uniform over 1e-2 to 1; each
-     * line shows a peak with probability equal to its strength (so the strength is a fair
-     * prior), at the line plus Gaussian noise of 1 pm; 5-sigma tolerance. Over 60 seeded scenes:
-     * among matched peaks not flagged ambiguous at most 1 % have the wrong line, and the flagged
-     * peaks hold most of the wrong identifications.
+     * apart on average, four peak uncertainties, many within one or two), relative strengths
+     * log-uniform over 1e-2 to 1, peaks at the line plus Gaussian noise of 1 pm, 5-sigma tolerance,
+     * 60 seeded scenes each. Three ways lines come to show a peak: with probability equal to their
+     * strength (the strength a fair prior), 0.95 S^0.3 (weak lines show far more often than their
+     * strength says, as in a bright spectrum where every line above the noise shows; a review's
+     * model), and 0.95 whatever the strength. In each, among matched peaks not flagged ambiguous
+     * at most 1 % have the wrong line, and the flagged peaks hold most of the wrong
+     * identifications. With the full strength prior (weight 1, the default before) the second
+     * gave 1.43 % (34 of 2371) and the third 0.76 %.
      */
     @Test
     void ambiguityFlagsWhereTheErrorsAre() {
+        List<String> figures = new ArrayList<>();
+        for (double exponent : new double[] {1, 0.3, 0}) {
+            int[] counts = crowdedScenes(exponent, Identifier.of(Tolerance.kSigma(5)));
+            int clear = counts[0];
+            int clearWrong = counts[1];
+            int flagged = counts[2];
+            int flaggedWrong = counts[3];
+            double clearRate = (double) clearWrong / clear;
+            double flaggedShare = (double) flaggedWrong / (clearWrong + flaggedWrong);
+            String figure = String.format(java.util.Locale.ROOT, "shown as S^%.1f: %d clear peaks, %d wrong (%.2f %%); "
+                    + "%d flagged, %d wrong (%.1f %%); flagged peaks hold %.1f %% of the errors", exponent, clear,
+                    clearWrong, 100 * clearRate, flagged, flaggedWrong, 100.0 * flaggedWrong / flagged,
+                    100 * flaggedShare);
+            figures.add(figure);
+            assertTrue(clear > 800, figure);
+            assertTrue(flagged > 100, figure);
+            assertTrue(clearRate <= 0.01, figure);
+            assertTrue(flaggedShare > 0.5, figure);
+        }
+        System.out.println("crowded scenes: " + String.join("; ", figures));
+    }
+
+    /** @return clear, clear and wrong, flagged, flagged and wrong peaks over the 60 scenes */
+    static int[] crowdedScenes(double exponent, Identifier identifier) {
         String[] names = {"Fe I", "Ti I", "Cr I", "Ni I"};
         double sigma = 1e-12;
-        int clear = 0;
-        int clearWrong = 0;
-        int flagged = 0;
-        int flaggedWrong = 0;
+        int[] counts = new int[4];
         for (long seed = 1; seed <= 60; seed++) {
             SplittableRandom random = new SplittableRandom(1000 + seed);
             LineCatalog.Builder builder = LineCatalog.builder();
@@ -300,7 +326,8 @@ class IdentificationRulesTest {
             LineCatalog lines = builder.build();
             List<double[]> drawn = new ArrayList<>();
             for (int j = 0; j < lines.size(); j++) {
-                if (random.nextDouble() < lines.strength(j)) {
+                double shows = exponent == 1 ? lines.strength(j) : 0.95 * Math.pow(lines.strength(j), exponent);
+                if (random.nextDouble() < shows) {
                     drawn.add(new double[] {lines.wavelength(j) + sigma * Scenes.gaussian(random), j});
                 }
             }
@@ -313,26 +340,23 @@ class IdentificationRulesTest {
                 sigmas[i] = sigma;
                 truth[i] = (int) drawn.get(i)[1];
             }
-            Identification result = Identifier.of(Tolerance.kSigma(5)).identify(
-                    PeakList.ofVacuumMetres(positions, sigmas), lines);
+            Identification result = identifier.identify(PeakList.ofVacuumMetres(positions, sigmas), lines);
             for (int i = 0; i < positions.length; i++) {
-                if (result.status(i) == Identification.MATCHED) {
-                    clear++;
-                    clearWrong += result.line(i) != truth[i] ? 1 : 0;
-                } else if (result.status(i) == Identification.AMBIGUOUS) {
-                    flagged++;
-                    flaggedWrong += result.line(i) != truth[i] ? 1 : 0;
+                int at = result.status(i) == Identification.MATCHED ? 0
+                        : result.status(i) == Identification.AMBIGUOUS ? 2 : -1;
+                if (at >= 0) {
+                    counts[at]++;
+                    counts[at + 1] += result.line(i) != truth[i] ? 1 : 0;
                 }
             }
         }
-        double clearRate = (double) clearWrong / clear;
-        double flaggedShare = (double) flaggedWrong / (clearWrong + flaggedWrong);
-        String figures = String.format(java.util.Locale.ROOT, "crowded scenes: %d clear peaks, %d wrong (%.2f %%); "
-                + "%d flagged, %d wrong (%.1f %%); flagged peaks hold %.1f %% of the errors", clear, clearWrong,
-                100 * clearRate, flagged, flaggedWrong, 100.0 * flaggedWrong / flagged, 100 * flaggedShare);
-        assertTrue(clear > 1000, figures);
-        assertTrue(flagged > 100, figures);
-        assertTrue(clearRate <= 0.01, figures);
-        assertTrue(flaggedShare > 0.5, figures);
+        return counts;
+    }
+
+    /** The full strength prior fails the second way of showing: the test above can fail. */
+    @Test
+    void theFullStrengthPriorMissesWeakLinesThatShow() {
+        int[] counts = crowdedScenes(0.3, Identifier.of(Tolerance.kSigma(5)).withStrengthWeight(1));
+        assertTrue(counts[1] > 0.01 * counts[0], counts[1] + " of " + counts[0]);
     }
 }
