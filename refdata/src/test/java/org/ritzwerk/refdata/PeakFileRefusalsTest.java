@@ -9,6 +9,10 @@ import org.junit.jupiter.api.Test;
 /** Peak files a review broke on purpose: each refusal names the file, the place and what was wrong. */
 class PeakFileRefusalsTest {
 
+    private static final String JSON_HEAD = "{\"format\":\"ritzwerk-peaks\",\"formatVersion\":1,\"id\":\"b\","
+            + "\"title\":\"t\",\"source\":\"s\",\"provenance\":\"measured\",\"version\":\"1\",\"positionUnit\":\"nm\","
+            + "\"medium\":\"air\",";
+
     private static final String HEADER = "# ritzwerk-peaks 1\n# id: p\n# title: t\n# source: invented\n"
             + "# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: air\n";
 
@@ -28,8 +32,7 @@ class PeakFileRefusalsTest {
         assertEquals(12, e.problems().get(1).line());
         // below the position, or not given: read
         assertEquals(2, PeakFiles.read(HEADER + "position,uncertainty\n486.13,486.12\n656.28,\n", "ok.csv").size());
-        String json = "{\"format\":\"ritzwerk-peaks\",\"formatVersion\":1,\"id\":\"b\",\"title\":\"t\",\"source\":\"s\","
-                + "\"provenance\":\"measured\",\"version\":\"1\",\"positionUnit\":\"nm\",\"medium\":\"air\","
+        String json = JSON_HEAD
                 + "\"peaks\":[{\"position\":486.13,\"uncertainty\":0.01},{\"position\":656.28,\"uncertainty\":1e308}]}";
         DataFileException j = assertThrows(DataFileException.class, () -> PeakFiles.read(json, "huge.json"));
         assertTrue(j.getMessage().contains("entry 2 of 'peaks', column uncertainty: uncertainty must be below the"
@@ -50,8 +53,7 @@ class PeakFileRefusalsTest {
     /** A JSON field of the wrong type named its line and column only: every entry of a one-line file is line 1. */
     @Test
     void aJsonFieldOfTheWrongTypeNamesItsEntry() {
-        String json = "{\"format\":\"ritzwerk-peaks\",\"formatVersion\":1,\"id\":\"b\",\"title\":\"t\",\"source\":\"s\","
-                + "\"provenance\":\"measured\",\"version\":\"1\",\"positionUnit\":\"nm\",\"medium\":\"air\","
+        String json = JSON_HEAD
                 + "\"peaks\":[{\"position\":486.13},{\"position\":\"NaN\"},{\"position\":500,\"colour\":\"red\"}]}";
         DataFileException e = assertThrows(DataFileException.class, () -> PeakFiles.read(json, "typed.json"));
         assertTrue(e.getMessage().contains("entry 2 of 'peaks': field 'position' must be a JSON number, got the string"

@@ -83,7 +83,8 @@ class ResolvedComponentsTest {
         double farthest = components[components.length - 1];
         double main = components[0];
         double sigma = 5e-12;
-        assertTrue(farthest - main > 5 * sigma && farthest - main < 10 * sigma, "between h and 2 h: " + (farthest - main));
+        assertTrue(farthest - main > 5 * sigma && farthest - main < 10 * sigma,
+                "between h and 2 h: " + (farthest - main));
         assertEquals(3, catalog.positions(0, 5 * sigma).length, "the centroid and two groups");
         Identification result = Identifier.of(Tolerance.kSigma(5)).identify(peaks(sigma, main, farthest), catalog);
         for (int i = 0; i < 2; i++) {
