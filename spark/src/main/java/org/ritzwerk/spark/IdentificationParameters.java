@@ -7,6 +7,7 @@ import org.ritzwerk.atom.Species;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.hydrogenic.Tier;
+import org.ritzwerk.engine.identify.Identifier;
 import org.ritzwerk.engine.identify.Tolerance;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Kind;
@@ -57,6 +58,9 @@ import org.ritzwerk.quantity.Unit;
  *                              none)
  * @param resolvingPower        for the plasma estimate, instead: the response's lambda / FWHM; NaN
  *                              to use {@code instrumentFwhmNm}
+ * @param strengthWeight        how much the lines' expected strengths count as priors, 0 to 1 (as the
+ *                              command's {@code --strength-weight}; the factories give the engine's
+ *                              default, {@code Identifier.DEFAULT_STRENGTH_WEIGHT})
  *
  * <p>Serialisable only to travel from the driver to the executors of the same version, so the
  * serialised form is not part of the API.
@@ -66,7 +70,7 @@ import org.ritzwerk.quantity.Unit;
 public record IdentificationParameters(List<String> species, String model, int nMax, boolean components,
         List<String> lineSets, List<String> dataFiles, double excitationTemperature, double windowFromNm,
         double windowToNm, String tolerance, double searchVelocity, double searchOffsetNm, String unit, String medium,
-        boolean plasma, double instrumentFwhmNm, double resolvingPower) implements Serializable {
+        boolean plasma, double instrumentFwhmNm, double resolvingPower, double strengthWeight) implements Serializable {
 
     /**
      * Checks every field (the tolerance, model, unit and medium are read as the engine reads
@@ -89,6 +93,7 @@ public record IdentificationParameters(List<String> species, String model, int n
      * @param plasma                as above
      * @param instrumentFwhmNm      as above
      * @param resolvingPower        as above
+     * @param strengthWeight        as above
      */
     public IdentificationParameters {
         species = List.copyOf(species);
@@ -137,6 +142,9 @@ public record IdentificationParameters(List<String> species, String model, int n
         if (!Double.isNaN(resolvingPower) && instrumentFwhmNm != 0) {
             throw new IllegalArgumentException("give instrumentFwhmNm or resolvingPower, not both");
         }
+        if (!(strengthWeight >= 0 && strengthWeight <= 1)) {
+            throw new IllegalArgumentException("strengthWeight must be 0 to 1, got " + strengthWeight);
+        }
     }
 
     private static final long serialVersionUID = 1L;
@@ -154,7 +162,8 @@ public record IdentificationParameters(List<String> species, String model, int n
     public static IdentificationParameters inWindow(List<String> species, List<String> lineSets, double fromNm,
             double toNm) {
         return new IdentificationParameters(species, "qed", 30, false, lineSets, List.of(), Double.NaN, fromNm,
-                toNm, "5 sigma", Double.NaN, Double.NaN, "nm", "vacuum", false, 0, Double.NaN);
+                toNm, "5 sigma", Double.NaN, Double.NaN, "nm", "vacuum", false, 0, Double.NaN,
+                Identifier.DEFAULT_STRENGTH_WEIGHT);
     }
 
     /**
@@ -167,7 +176,8 @@ public record IdentificationParameters(List<String> species, String model, int n
      */
     public static IdentificationParameters perSpectrumWindow(List<String> species, List<String> lineSets) {
         return new IdentificationParameters(species, "qed", 30, false, lineSets, List.of(), Double.NaN, Double.NaN,
-                Double.NaN, "5 sigma", Double.NaN, Double.NaN, "nm", "vacuum", false, 0, Double.NaN);
+                Double.NaN, "5 sigma", Double.NaN, Double.NaN, "nm", "vacuum", false, 0, Double.NaN,
+                Identifier.DEFAULT_STRENGTH_WEIGHT);
     }
 
     /**
@@ -177,7 +187,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withSpecies(List<String> list) {
         return new IdentificationParameters(list, model, nMax, components, lineSets, dataFiles, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
-                instrumentFwhmNm, resolvingPower);
+                instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -188,7 +198,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withModel(String id, int n) {
         return new IdentificationParameters(species, id, n, components, lineSets, dataFiles, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
-                instrumentFwhmNm, resolvingPower);
+                instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -198,7 +208,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withComponents(boolean on) {
         return new IdentificationParameters(species, model, nMax, on, lineSets, dataFiles, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
-                instrumentFwhmNm, resolvingPower);
+                instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -208,7 +218,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withLineSets(List<String> ids) {
         return new IdentificationParameters(species, model, nMax, components, ids, dataFiles, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
-                instrumentFwhmNm, resolvingPower);
+                instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -218,7 +228,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withDataFiles(List<String> files) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, files, excitationTemperature,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
-                instrumentFwhmNm, resolvingPower);
+                instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -228,7 +238,18 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withExcitationTemperature(double kelvin) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles, kelvin,
                 windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium, plasma,
-                instrumentFwhmNm, resolvingPower);
+                instrumentFwhmNm, resolvingPower, strengthWeight);
+    }
+
+    /**
+     * @param weight how much the lines' expected strengths count as priors, 0 to 1 (1 for a faint
+     *               spectrum whose lines show about in proportion to their strength, 0 for position alone)
+     * @return a copy
+     */
+    public IdentificationParameters withStrengthWeight(double weight) {
+        return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
+                excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium,
+                plasma, instrumentFwhmNm, resolvingPower, weight);
     }
 
     /**
@@ -238,7 +259,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withTolerance(String text) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, text, searchVelocity, searchOffsetNm, unit, medium,
-                plasma, instrumentFwhmNm, resolvingPower);
+                plasma, instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -248,7 +269,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withVelocitySearch(double metresPerSecond) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, metresPerSecond, searchOffsetNm, unit,
-                medium, plasma, instrumentFwhmNm, resolvingPower);
+                medium, plasma, instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -258,7 +279,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withOffsetSearch(double nanometres) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, nanometres, unit, medium,
-                plasma, instrumentFwhmNm, resolvingPower);
+                plasma, instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -269,7 +290,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withUnit(String symbol, String mediumSpec) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, symbol,
-                mediumSpec, plasma, instrumentFwhmNm, resolvingPower);
+                mediumSpec, plasma, instrumentFwhmNm, resolvingPower, strengthWeight);
     }
 
     /**
@@ -279,7 +300,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withPlasmaEstimate(double fwhmNm) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit,
-                medium, true, fwhmNm, Double.NaN);
+                medium, true, fwhmNm, Double.NaN, strengthWeight);
     }
 
     /**
@@ -289,7 +310,7 @@ public record IdentificationParameters(List<String> species, String model, int n
     public IdentificationParameters withPlasmaEstimateAtResolvingPower(double r) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
                 excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit,
-                medium, true, 0, r);
+                medium, true, 0, r, strengthWeight);
     }
 
     /** @return the positions' unit */

@@ -487,7 +487,8 @@ public final class SurveyIdentification {
             }
             Tolerance tolerance = Tolerance.parse(p.tolerance());
             this.kSigma = tolerance.kind() == Tolerance.Kind.K_SIGMA;
-            IdentificationSearch s = IdentificationSearch.of(Identifier.of(tolerance));
+            IdentificationSearch s = IdentificationSearch.of(Identifier.of(tolerance)
+                    .withStrengthWeight(p.strengthWeight()));
             if (!Double.isNaN(p.searchVelocity())) {
                 s = s.withVelocitySearch(p.searchVelocity());
             }

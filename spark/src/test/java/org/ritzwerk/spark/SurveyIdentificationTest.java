@@ -140,6 +140,41 @@ class SurveyIdentificationTest {
         assertEquals(Schemas.IDENTIFIED_PEAKS.simpleString(), result.peaks().schema().simpleString());
     }
 
+    /**
+     * The strength weight reaches the executors: a peak 2 sigma from a line and 1.3 sigma from a
+     * line of the same species 100 times weaker takes the strong line at the default weight and
+     * the weak one by position alone, as the command's --strength-weight does. Invented lines.
+     */
+    @Test
+    void theStrengthWeightDecidesAsInTheLibrary(@org.junit.jupiter.api.io.TempDir java.nio.file.Path dir)
+            throws java.io.IOException {
+        SparkSession spark = LocalSpark.session();
+        java.nio.file.Path lines = dir.resolve("two.csv");
+        java.nio.file.Files.writeString(lines, "# ritzwerk-lines 1\n# id: invented-two\n# title: t\n"
+                + "# source: invented\n# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: vacuum\n"
+                + "species,position,intensity\nKr I,500.000,100\nKr I,500.010,1\n");
+        List<Fixtures.PeakListData> one = List.of(new Fixtures.PeakListData("one", new double[] {500.006},
+                new double[] {0.003}, new double[] {10}, new double[] {0.01}));
+        double[] taken = new double[2];
+        double[] weights = {Identifier.DEFAULT_STRENGTH_WEIGHT, 0};
+        for (int k = 0; k < 2; k++) {
+            IdentificationParameters parameters = IdentificationParameters.perSpectrumWindow(List.of(),
+                    List.of(lines.toString()));
+            if (k == 1) {
+                parameters = parameters.withStrengthWeight(0);
+            }
+            assertEquals(weights[k], parameters.strengthWeight());
+            List<Row> peaks = SurveyIdentification.of(parameters).identify(Fixtures.peakListTable(spark, one, 1))
+                    .peaks().collectAsList();
+            assertEquals(1, peaks.size());
+            taken[k] = peaks.get(0).getAs("line_position");
+        }
+        assertEquals(500.000, taken[0], 1e-9, "the strong line at the default weight");
+        assertEquals(500.010, taken[1], 1e-9, "the nearer weak line by position alone");
+        assertThrows(IllegalArgumentException.class, () -> IdentificationParameters.perSpectrumWindow(List.of("H I"),
+                List.of()).withStrengthWeight(1.5));
+    }
+
     @Test
     void offsetSearchAndARefusedSpectrumGiveTheLibrarysValues() {
         SparkSession spark = LocalSpark.session();
