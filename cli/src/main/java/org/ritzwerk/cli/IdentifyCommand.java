@@ -151,6 +151,8 @@ final class IdentifyCommand implements Callable<Integer> {
         if (tol.kind() == Tolerance.Kind.K_SIGMA) {
             refuseZeroUncertainties(read, peaksFile);
         }
+        tol.sharperThanThePeaksNote(peaks).ifPresent(note -> spec.commandLine().getErr().println("note: --tolerance "
+                + tolerance + ": " + note));
         Identifier identifier = Identifier.of(tol);
         if (strengthWeight != null) {
             identifier = identifier.withStrengthWeight(strengthWeight);

@@ -247,6 +247,23 @@ class IdentifyCommandTest {
         assertTrue(bad.err().contains("--strength-weight"), bad.err());
     }
 
+    /** A width tolerance under three of the peaks' uncertainties is noted (its odds are overconfident). */
+    @Test
+    void aToleranceSharperThanThePeaksIsNoted(@TempDir Path dir) throws IOException {
+        Path peaks = dir.resolve("balmer.csv");
+        Files.writeString(peaks, HEADER + "position,uncertainty\n486.135,0.001\n656.279,0.001\n",
+                StandardCharsets.UTF_8);
+        CliTest.Run narrow = CliTest.run("identify", peaks.toString(), "--species", "H I", "--tolerance", "0.002 nm");
+        assertEquals(0, narrow.code(), narrow.err());
+        assertTrue(narrow.err().contains("note: --tolerance 0.002 nm: 2 of 2 peaks state an uncertainty above a third"
+                + " of the tolerance's half-width"), narrow.err());
+        for (String fine : new String[] {"0.01 nm", "5 sigma"}) {
+            CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I", "--tolerance", fine);
+            assertEquals(0, run.code(), run.err());
+            assertFalse(run.err().contains("note: --tolerance"), run.err());
+        }
+    }
+
     @Test
     void theCommandGivesWhatTheLibraryJobGives(@TempDir Path dir) throws IOException {
         // Invented peaks: four Balmer multiplets of the engine moved by 25 km/s, in air, and a stray peak.

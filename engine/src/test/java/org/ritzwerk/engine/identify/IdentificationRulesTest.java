@@ -353,6 +353,28 @@ class IdentificationRulesTest {
         return counts;
     }
 
+    /**
+     * A width tolerance scores residuals as a Gaussian of a third of its half-width: below the
+     * peaks' own 1 pm that makes the odds overconfident (0.002 nm: over 1 % of unflagged peaks
+     * wrong), and the tolerance says so; at 0.003 nm (a third is 1 pm) the flag holds again and
+     * no note is given.
+     */
+    @Test
+    void aWidthNarrowerThanThreePeakUncertaintiesIsNoted() {
+        Tolerance narrow = Tolerance.absolute(2e-12);
+        Tolerance enough = Tolerance.absolute(3e-12);
+        int[] sharp = crowdedScenes(1, Identifier.of(narrow));
+        int[] fair = crowdedScenes(1, Identifier.of(enough));
+        assertTrue(sharp[1] > 0.01 * sharp[0], sharp[1] + " of " + sharp[0]);
+        assertTrue(fair[1] <= 0.01 * fair[0], fair[1] + " of " + fair[0]);
+        double[] at = {500.1e-9, 500.2e-9, 500.3e-9};
+        PeakList peaks = PeakList.ofVacuumMetres(at, new double[] {1e-12, 1e-12, 1e-12});
+        assertTrue(narrow.sharperThanThePeaksNote(peaks).orElseThrow().startsWith("3 of 3 peaks state an uncertainty"));
+        assertTrue(enough.sharperThanThePeaksNote(peaks).isEmpty());
+        assertTrue(Tolerance.kSigma(5).sharperThanThePeaksNote(peaks).isEmpty());
+        assertTrue(narrow.sharperThanThePeaksNote(PeakList.ofVacuumMetres(at, null)).isEmpty(), "no uncertainties");
+    }
+
     /** The full strength prior fails the second way of showing: the test above can fail. */
     @Test
     void theFullStrengthPriorMissesWeakLinesThatShow() {
