@@ -248,8 +248,8 @@ public record IdentificationParameters(List<String> species, String model, int n
      */
     public IdentificationParameters withStrengthWeight(double weight) {
         return new IdentificationParameters(species, model, nMax, components, lineSets, dataFiles,
-                excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit, medium,
-                plasma, instrumentFwhmNm, resolvingPower, weight);
+                excitationTemperature, windowFromNm, windowToNm, tolerance, searchVelocity, searchOffsetNm, unit,
+                medium, plasma, instrumentFwhmNm, resolvingPower, weight);
     }
 
     /**
