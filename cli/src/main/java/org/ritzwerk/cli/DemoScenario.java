@@ -129,7 +129,7 @@ final class DemoScenario {
         out.println("  ./ritzwerk identify " + folder.resolve("discharge-peaks.csv")
                 + " --species \"H I,D I,He II\" --search-velocity 50 --tolerance \"0.06 nm\"");
         out.println("  (the unresolved H+D pairs sit between the H and D lines, hence the wide tolerance; the command");
-        out.println("  pairs each with its H line, so its velocity comes out about 3 km/s lower than the report's,");
+        out.println("  pairs each with its H line, so its velocity comes out about 2 km/s lower than the report's,");
         out.println("  which places those pairs at their flux-weighted mean)");
         out.flush();
         return results;

@@ -83,6 +83,12 @@ class DemoTest {
                 "--species", "H I,D I,He II", "--search-velocity", "50", "--tolerance", "0.06 nm");
         assertEquals(0, identify.code(), identify.err());
         assertTrue(identify.out().contains("8 peaks: 8 matched"), identify.out());
+        // the report says the command's velocity comes out about 2 km/s lower than its own (it said
+        // 3 km/s; a review measured 3.91 against 5.77 km/s)
+        assertTrue(report.contains("comes out about 2 km/s lower than the report's"), report);
+        java.util.regex.Matcher v = java.util.regex.Pattern.compile("velocity (-?[0-9.]+) \\+- ").matcher(identify.out());
+        assertTrue(v.find(), identify.out());
+        assertEquals(2.0, r.velocity / 1e3 - Double.parseDouble(v.group(1)), 0.5, identify.out());
     }
 
     @Test

@@ -257,7 +257,7 @@ class IdentifyCommandTest {
         assertEquals(0, narrow.code(), narrow.err());
         assertTrue(narrow.err().contains("note: --tolerance 0.002 nm: 2 of 2 peaks state an uncertainty above a third"
                 + " of the tolerance's half-width"), narrow.err());
-        for (String fine : new String[] {"0.01 nm", "5 sigma"}) {
+        for (String fine : new String[] {"0.003 nm", "0.01 nm", "5 sigma"}) { // 0.003 nm: exactly three, in air
             CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I", "--tolerance", fine);
             assertEquals(0, run.code(), run.err());
             assertFalse(run.err().contains("note: --tolerance"), run.err());

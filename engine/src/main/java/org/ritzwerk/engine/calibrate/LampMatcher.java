@@ -469,12 +469,13 @@ public final class LampMatcher {
         }
         throw new CalibrationException(CalibrationException.LAMP_MISMATCH, String.format(Locale.ROOT,
                 "the lamp lines (%s) do not explain the spectrum (%s): the best pairing matches %d of the %d strongest "
-                        + "peaks (%.0f%%; %.0f%% required), %d of them within %.2f pixels of their lines where chance "
+                        + "peaks (%.0f%%; %.0f%% required), and %d of all %d peaks lie within %.2f pixels of its lines"
+                        + " where chance "
                         + "alone would put %.1f (probability %.2g for one pairing, so %.2g expected by chance"
                         + " among the %d distinct solutions tried; at most %.2g accepted), %s",
                 span(lines), failed(shown, shownRefined, shownSearch), shown.strongMatched, shownSearch.strong.length,
                 100.0 * shown.strongMatched / shownSearch.strong.length, 100 * minInlierFraction, shown.preciseMatched,
-                shown.preciseTolerance, shown.chance, chanceProbability(shown),
+                n, shown.preciseTolerance, shown.chance, chanceProbability(shown),
                 chanceProbability(shown) * Math.max(1, shownSearch.evaluated), shownSearch.evaluated,
                 MAX_FALSE_ALARM, where(inside, anywhere))
                 + String.format(Locale.ROOT, "; the pairs scatter about its polynomial with a robust reduced "

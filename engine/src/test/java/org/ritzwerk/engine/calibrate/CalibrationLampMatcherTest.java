@@ -388,6 +388,10 @@ class CalibrationLampMatcherTest {
                 scene.centre, scene.sigma, scene.intensity, LampScene.PIXELS, ARGON));
         assertEquals(CalibrationException.LAMP_MISMATCH, e.code(), e.getMessage());
         assertTrue(e.getMessage().contains("do not explain the spectrum"), e.getMessage());
+        // the precise pairs are counted over all peaks and said so (it read "8 of the 25 strongest
+        // peaks ..., 10 of them within 1.16 pixels": ten of eight)
+        assertTrue(java.util.regex.Pattern.compile("strongest peaks \\([0-9]+%; [0-9]+% required\\), and [0-9]+ of all "
+                + scene.centre.length + " peaks lie within").matcher(e.getMessage()).find(), e.getMessage());
     }
 
     @Test
