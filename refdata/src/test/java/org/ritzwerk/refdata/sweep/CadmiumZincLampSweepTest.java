@@ -14,7 +14,8 @@ import org.ritzwerk.engine.calibrate.Calibrator;
  * with an error above 1 pixel between its first and last fitted line.
  *
  * <p>Seeds 1 to 40, solved / refused / accepted with 0.1 to 1 pixel error / worse: Cd + Zn
- * 16 / 19 / 5 / 0 (21 lines from 213.9 to 643.8 nm: a window of 150 nm holds only 5 to 10, so
+ * 15 / 20 / 5 / 0 as re-counted on 2026-12-05 (16 / 19 / 5 / 0 earlier; 21 lines from 213.9 to 643.8 nm: a
+ * window of 150 nm holds only 5 to 10, so
  * many are refused), Hg + Cd + Zn 25 / 12 / 3 / 0 (15 / 20 / 5 / 0 and 24 / 13 / 3 / 0 before a
  * pair's centroid got the bound of a neighbouring lamp line). Before the lack-of-fit test for a degree that
  * the pair count capped ({@code Calibrator.LACK_OF_FIT_PROBABILITY}) Hg + Cd + Zn seed 24 was
