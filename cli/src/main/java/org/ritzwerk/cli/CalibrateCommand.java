@@ -437,11 +437,21 @@ final class CalibrateCommand implements Callable<Integer> {
         if (minStrength == null) {
             return lamp;
         }
+        LampSet kept;
         try {
-            return lamp.atLeast(StrengthClass.fromId(minStrength.strip().toLowerCase(java.util.Locale.ROOT)));
+            kept = lamp.atLeast(StrengthClass.fromId(minStrength.strip().toLowerCase(java.util.Locale.ROOT)));
         } catch (IllegalArgumentException e) {
             throw new OptionException("--min-strength: " + e.getMessage(), e);
         }
+        int unclassified = lamp.unclassifiedLines();
+        if (unclassified > 0) {
+            spec.commandLine().getErr().println("note: --min-strength " + minStrength.strip() + " keeps "
+                    + count(unclassified, "line") + " of " + lamp.size() + " whatever their strength: "
+                    + (unclassified == 1 ? "it has" : "they have") + " no strength class (a lamp from a level list,"
+                    + " or a line list without the strength column)" + (kept.size() == lamp.size()
+                            ? ", so the option leaves the lamp as it was" : ""));
+        }
+        return kept;
     }
 
     /** @return "1 peak", "2 peaks" */

@@ -78,6 +78,14 @@ class HeliumCommandsTest {
                 + "ranked by g_u A .* left out\\), as \\d+ lines at resolving power 5000\\R"), run.err());
         assertTrue(run.out().contains("He I 1s3d 3D3 - 1s2p 3P2 (+5 blended)"), run.out());
         assertTrue(run.out().contains("He I 1s3s 3S1 - 1s2p 3P2 (+2 blended)"), run.out());
+        // the level list's lines have no strength class: --min-strength keeps them all, and says so
+        // (it ran silently with no effect)
+        CliTest.Run strong = CliTest.run("calibrate", spectrum.toString(), "--lamp", "He I", "--min-strength",
+                "strong");
+        assertEquals(0, strong.code(), strong.err());
+        assertTrue(strong.err().matches("(?s).*note: --min-strength strong keeps \\d+ lines of \\d+ whatever their"
+                + " strength: they have no strength class .*, so the option leaves the lamp as it was\\R.*"),
+                strong.err());
         CliTest.Run list = CliTest.run("calibrate", spectrum.toString(), "--lines", "lines-he-i");
         assertEquals(0, list.code(), list.err());
         assertTrue(list.err().matches("(?s)note: \\d+ lines of \\[lines-he-i\\] lie outside the range of the air "

@@ -408,6 +408,18 @@ public final class LampSet {
     }
 
     /**
+     * @return how many lines have no strength class (a lamp from a level list, or a line list without the
+     *         strength column): {@link #atLeast} keeps them whatever the class asked for
+     */
+    public int unclassifiedLines() {
+        int n = 0;
+        for (StrengthClass s : strength) {
+            n += s == null ? 1 : 0;
+        }
+        return n;
+    }
+
+    /**
      * The lines whose list classes them at least as strong as {@code weakest} (strong, then
      * medium, then weak), for a lamp whose weak lines are not seen or not wanted. Lines whose list
      * gives no class are kept (nothing says they are weak).
