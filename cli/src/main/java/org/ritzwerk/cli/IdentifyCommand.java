@@ -505,12 +505,21 @@ final class IdentifyCommand implements Callable<Integer> {
             summary.println();
         }
         int notShown = 0;
+        int stray = 0;
         for (int i = 0; i < positions.length; i++) {
             notShown += result.speciesNotShown(i) ? 1 : 0;
+            stray += result.matchedByOdds(i) && !result.speciesNotShown(i) && result.mayBeStray(i) ? 1 : 0;
+        }
+        List<String> why = new ArrayList<>(2);
+        if (notShown > 0) {
+            why.add(notShown + " of a species not shown beyond chance");
+        }
+        if (stray > 0) {
+            why.add(stray + " that a stray peak may explain");
         }
         summary.println(String.format(Locale.ROOT, "%d peaks: %d matched, %d ambiguous%s, %d unexplained%s",
                 read.size(), result.count(Identification.MATCHED), result.count(Identification.AMBIGUOUS),
-                notShown == 0 ? "" : " (" + notShown + " of a species not shown beyond chance)",
+                why.isEmpty() ? "" : " (" + String.join("; ", why) + ")",
                 result.count(Identification.UNEXPLAINED),
                 (fit == null ? "" : shift("velocity", fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, "%.3f",
                         "km/s", fit.matches()))

@@ -247,6 +247,27 @@ class IdentifyCommandTest {
         assertTrue(bad.err().contains("--strength-weight"), bad.err());
     }
 
+    /**
+     * A peak 3 sigma from its line among twelve peaks no line explains (about one per 24 nm) could
+     * as well be one of them: flagged, and the summary says why; the peaks on their lines stay
+     * matched. Invented peaks near the Balmer lines (the engine's multiplets).
+     */
+    @Test
+    void aPeakThatAStrayCouldExplainIsFlagged(@TempDir Path dir) throws IOException {
+        StringBuilder rows = new StringBuilder("position,uncertainty\n410.174,0.01\n434.077,0.01\n486.133,0.01\n");
+        for (int x = 500; x <= 635; x += 15) {
+            rows.append(x).append(".5,0.01\n");
+        }
+        rows.append("656.279,0.01\n670.5,0.01\n685.5,0.01\n");
+        Path peaks = dir.resolve("strays.csv");
+        Files.writeString(peaks, HEADER + rows, StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("16 peaks: 3 matched, 1 ambiguous (1 that a stray peak may explain), 12"
+                + " unexplained"), run.out());
+        assertTrue(run.out().matches("(?s).*\\n2 +11 +434\\.077000 +ambiguous +H I +Balmer gamma .*"), run.out());
+    }
+
     /** A width tolerance under three of the peaks' uncertainties is noted (its odds are overconfident). */
     @Test
     void aToleranceSharperThanThePeaksIsNoted(@TempDir Path dir) throws IOException {

@@ -38,6 +38,10 @@ public final class Identification {
      * presence) and then kept: a shift search's many trial identifications never need them.
      */
     private volatile Presence presence;
+    /** ln of the identifier's ambiguity odds. */
+    private final double logOdds;
+    /** The stray density, worked out once ({@link #strayDensity}); NaN until then. */
+    private volatile double strayDensity = Double.NaN;
     private final boolean[] used;
     private final int greedyComponents;
     private final double strongLine;
@@ -54,14 +58,15 @@ public final class Identification {
 
     Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
             int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
-            Identifier.IntensityTerm intensityTerm) {
+            Identifier.IntensityTerm intensityTerm, double logOdds) {
         this(peaks, lines, linePlusOne, used, greedyComponents, strongLine, tolerance, strengthWeight, intensityTerm,
-                0, 0);
+                logOdds, 0, 0);
     }
 
     private Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
             int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
-            Identifier.IntensityTerm intensityTerm, double searchRelativeSpan, double searchSpan) {
+            Identifier.IntensityTerm intensityTerm, double logOdds, double searchRelativeSpan, double searchSpan) {
+        this.logOdds = logOdds;
         this.peaks = peaks;
         this.lines = lines;
         this.linePlusOne = linePlusOne;
@@ -85,7 +90,7 @@ public final class Identification {
      */
     Identification searchedOver(double relativeSpan, double span) {
         return new Identification(peaks, lines, linePlusOne, used, greedyComponents, strongLine, tolerance,
-                strengthWeight, intensityTerm, relativeSpan, span);
+                strengthWeight, intensityTerm, logOdds, relativeSpan, span);
     }
 
     /**
@@ -145,7 +150,102 @@ public final class Identification {
      */
     public int status(int i) {
         int v = linePlusOne[i];
-        return v == 0 ? UNEXPLAINED : v > 0 && !presence().notShown[lines.speciesIndex(v - 1)] ? MATCHED : AMBIGUOUS;
+        return v == 0 ? UNEXPLAINED : v > 0 && !presence().notShown[lines.speciesIndex(v - 1)] && !mayBeStray(i)
+                ? MATCHED : AMBIGUOUS;
+    }
+
+    /**
+     * Whether a stray peak (one no line of the catalogue made: dust, a ghost, a gas not offered)
+     * explains the peak about as well as its line, which makes a matched peak {@link #AMBIGUOUS}
+     * whatever its odds against the other lines. Strays are taken to fall uniformly at the density
+     * the unexplained peaks show: their number over the length of the peaks' range that no line's
+     * tolerance window covers (with the median peak uncertainty for a k-sigma tolerance; {@link
+     * #strayDensity}). A peak at residual r from its line, scored against s, has the likelihood
+     * exp(-(r/s)^2/2) / (s sqrt(2 pi)) per unit wavelength from its line and the stray density from
+     * a stray; it is flagged when the first is below the identifier's ambiguity odds times the
+     * second (Bayes' rule with equal priors; every line is taken to show one peak). Without
+     * unexplained peaks, or where the lines' windows cover nearly the whole range (less than a
+     * hundredth of it left), no density is estimated and nothing is flagged this way.
+     *
+     * <p>Measured (IdentificationRulesTest): in crowded invented scenes (lines 4 pm apart, 1 pm peaks)
+     * with 10 % spurious peaks, 149 of the 204 strays that took a line are flagged, against 102 by
+     * the other rules alone, and the unflagged wrong labels fall from 10.4 % to 8.6 %; the price
+     * there is 315 more real peaks flagged (of about 2,800), as a peak 1.5 sigma from a line among
+     * such strays could be one. In a review's sparser scenes of real species (0.05 nm peaks, 5 %
+     * strays) 22 strays stayed unflagged instead of 33, for 27 more real peaks flagged of 4,300.
+     * The strays left unflagged lie close to a line, where nothing tells them from its peak.
+     *
+     * @param i peak index
+     * @return true when the peak has a line and a stray explains it within the ambiguity odds
+     */
+    public boolean mayBeStray(int i) {
+        int v = linePlusOne[i];
+        if (v == 0) {
+            return false;
+        }
+        double density = strayDensity();
+        if (!(density > 0)) {
+            return false;
+        }
+        int j = Math.abs(v) - 1;
+        double x = peaks.wavelength(i);
+        double s = tolerance.scoringSigma(x, peaks.sigma(i), lines.sigma(j));
+        if (!(s > 0)) {
+            return false;
+        }
+        double z = residual(i) / s;
+        double fromLine = Math.exp(-0.5 * z * z) / (s * Math.sqrt(2 * Math.PI));
+        return fromLine < Math.exp(logOdds) * density;
+    }
+
+    /**
+     * @return the density of stray peaks per metre of vacuum wavelength that the unexplained peaks
+     *         show ({@link #mayBeStray}), 0 when none is estimated
+     */
+    public double strayDensity() {
+        double known = strayDensity;
+        if (Double.isNaN(known)) {
+            known = estimateStrayDensity();
+            strayDensity = known;
+        }
+        return known;
+    }
+
+    private double estimateStrayDensity() {
+        int unexplained = 0;
+        for (int v : linePlusOne) {
+            unexplained += v == 0 ? 1 : 0;
+        }
+        if (unexplained == 0 || peaks.size() < 2) {
+            return 0;
+        }
+        double[] sorted = ascending(peaks.wavelengths());
+        double lo = sorted[0];
+        double hi = sorted[sorted.length - 1];
+        double typicalSigma = peaks.medianSigma();
+        // the union of the lines' windows within [lo, hi], walked in wavelength order
+        double covered = 0;
+        double end = lo;
+        List<double[]> windows = new ArrayList<>();
+        for (int j = 0; j < lines.size(); j++) {
+            double w = lines.wavelength(j);
+            double h = tolerance.halfWidth(w, typicalSigma, lines.sigma(j));
+            for (double at : lines.positions(j, h)) {
+                if (at + h > lo && at - h < hi) {
+                    windows.add(new double[] {Math.max(lo, at - h), Math.min(hi, at + h)});
+                }
+            }
+        }
+        windows.sort((a, b) -> Double.compare(a[0], b[0]));
+        for (double[] window : windows) {
+            if (window[1] <= end) {
+                continue;
+            }
+            covered += window[1] - Math.max(window[0], end);
+            end = window[1];
+        }
+        double free = (hi - lo) - covered;
+        return free > 0.01 * (hi - lo) ? unexplained / free : 0;
     }
 
     /**

@@ -79,7 +79,9 @@ import java.util.Objects;
  * species that has strong lines in the peaks' range but does not show them beyond chance (none
  * found, or no more than chance gives and fewer than a present species would show;
  * {@link Identification#speciesNotShown}) is flagged ambiguous too
- * ({@link Identification#AMBIGUOUS}). Foreign peaks that land near a line of a species that
+ * ({@link Identification#AMBIGUOUS}). So is a matched peak that a stray peak explains about as
+ * well as its line, at the density of stray peaks the unexplained peaks show
+ * ({@link Identification#mayBeStray}). Foreign peaks that land close to a line of a species that
  * is present are not caught: the unflagged error rate grows with their share.
  *
  * <p>Immutable and thread-safe; no object is made per peak or candidate.
@@ -213,7 +215,7 @@ public final class Identifier {
             run(peaks, lines, order, results, 0, peaks.size(), term);
         }
         return new Identification(peaks, lines, results.linePlusOne, results.used,
-                results.greedy.get(), strongLine, tolerance, strengthWeight, term);
+                results.greedy.get(), strongLine, tolerance, strengthWeight, term, logOdds);
     }
 
     /**
@@ -315,7 +317,7 @@ public final class Identifier {
                     .forEach(c -> run(peaks, lines, order, results, cuts.get(c), cuts.get(c + 1), term));
         }
         return new Identification(peaks, lines, results.linePlusOne, results.used,
-                results.greedy.get(), strongLine, tolerance, strengthWeight, term);
+                results.greedy.get(), strongLine, tolerance, strengthWeight, term, logOdds);
     }
 
     /**
