@@ -86,7 +86,8 @@ class DemoTest {
         // the report says the command's velocity comes out about 2 km/s lower than its own (it said
         // 3 km/s; a review measured 3.91 against 5.77 km/s)
         assertTrue(report.contains("comes out about 2 km/s lower than the report's"), report);
-        java.util.regex.Matcher v = java.util.regex.Pattern.compile("velocity (-?[0-9.]+) \\+- ").matcher(identify.out());
+        java.util.regex.Matcher v = java.util.regex.Pattern.compile("velocity (-?[0-9.]+) \\+- ")
+                .matcher(identify.out());
         assertTrue(v.find(), identify.out());
         assertEquals(2.0, r.velocity / 1e3 - Double.parseDouble(v.group(1)), 0.5, identify.out());
     }
