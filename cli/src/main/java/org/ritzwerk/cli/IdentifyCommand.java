@@ -453,15 +453,18 @@ final class IdentifyCommand implements Callable<Integer> {
      */
     static String presenceLine(Identification.SpeciesPresence presence, double shiftsTried) {
         String where = shiftsTried > 1 ? " at one shift" : "";
-        String head = String.format(Locale.ROOT, "%s: %d lines matched (%.3g by chance%s)",
-                presence.species().notation(), presence.matched(), presence.matchedByChance(), where);
+        String head = String.format(Locale.ROOT, "%s: %d %s matched (%.3g by chance%s)",
+                presence.species().notation(), presence.matched(), presence.matched() == 1 ? "line" : "lines",
+                presence.matchedByChance(), where);
         if (presence.strongInRange() == 0) {
             return head + "; no strong line in range, presence not judged";
         }
-        return head + String.format(Locale.ROOT, "; %d of %d strong lines in range found (%.3g by chance, "
+        String tried = String.format(Locale.ROOT, "%.0f", shiftsTried);
+        return head + String.format(Locale.ROOT, "; %d of %d strong %s in range found (%.3g by chance, "
                 + "chance probability %.2g%s); presence %.2f", presence.strongMatched(), presence.strongInRange(),
-                presence.strongByChance(), presence.chanceProbability(), shiftsTried > 1
-                        ? String.format(Locale.ROOT, " over the %.0f shifts tried", shiftsTried) : "",
+                presence.strongInRange() == 1 ? "line" : "lines", presence.strongByChance(),
+                presence.chanceProbability(), shiftsTried > 1
+                        ? " over the " + tried + (tried.equals("1") ? " shift" : " shifts") + " tried" : "",
                 presence.presence());
     }
 
@@ -517,8 +520,8 @@ final class IdentifyCommand implements Callable<Integer> {
         if (stray > 0) {
             why.add(stray + " that a stray peak may explain");
         }
-        summary.println(String.format(Locale.ROOT, "%d peaks: %d matched, %d ambiguous%s, %d unexplained%s",
-                read.size(), result.count(Identification.MATCHED), result.count(Identification.AMBIGUOUS),
+        summary.println(String.format(Locale.ROOT, "%d %s: %d matched, %d ambiguous%s, %d unexplained%s",
+                read.size(), read.size() == 1 ? "peak" : "peaks", result.count(Identification.MATCHED), result.count(Identification.AMBIGUOUS),
                 why.isEmpty() ? "" : " (" + String.join("; ", why) + ")",
                 result.count(Identification.UNEXPLAINED),
                 (fit == null ? "" : shift("velocity", fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, "%.3f",

@@ -240,6 +240,8 @@ class IdentifyCommandTest {
             assertEquals(0, run.code(), run.err());
             String row = run.out().lines().skip(1).findFirst().orElseThrow();
             assertTrue(row.contains("," + c[1] + ",\"Kr I\"," + c[2] + ","), c[0] + ": " + row);
+            // one peak, one line: singular (it read "1 peaks", "1 lines matched")
+            assertTrue(run.err().startsWith("1 peak: ") && run.err().contains("Kr I: 1 line matched"), run.err());
         }
         CliTest.Run bad = CliTest.run("identify", peaks.toString(), "--lines", lines.toString(), "--strength-weight",
                 "1.5");
@@ -354,7 +356,7 @@ class IdentifyCommandTest {
         assertTrue(Double.parseDouble(h.group(1)) < 0.1 && Double.parseDouble(h.group(2)) < 0.01, h.group());
         assertTrue(Double.parseDouble(h.group(4)) >= 0.9, h.group());
         assertTrue(real.out().contains("He II: 0 lines matched"), real.out());
-        assertTrue(real.out().matches("(?s).*He II: .*; 0 of 1 strong lines in range found .*presence 0\\.00.*"),
+        assertTrue(real.out().matches("(?s).*He II: .*; 0 of 1 strong line in range found .*presence 0\\.00.*"),
                 real.out());
         // 20,000 random peaks (seeded) over 400-700 nm with 3 pm uncertainties: about 86 % of the
         // lines have a peak within 5 sigma by chance; no species may look present.
