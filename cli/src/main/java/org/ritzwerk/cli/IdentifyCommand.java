@@ -521,7 +521,8 @@ final class IdentifyCommand implements Callable<Integer> {
             why.add(stray + " that a stray peak may explain");
         }
         summary.println(String.format(Locale.ROOT, "%d %s: %d matched, %d ambiguous%s, %d unexplained%s",
-                read.size(), read.size() == 1 ? "peak" : "peaks", result.count(Identification.MATCHED), result.count(Identification.AMBIGUOUS),
+                read.size(), read.size() == 1 ? "peak" : "peaks", result.count(Identification.MATCHED),
+                result.count(Identification.AMBIGUOUS),
                 why.isEmpty() ? "" : " (" + String.join("; ", why) + ")",
                 result.count(Identification.UNEXPLAINED),
                 (fit == null ? "" : shift("velocity", fit.velocity() / 1e3, fit.velocityUncertainty() / 1e3, "%.3f",
