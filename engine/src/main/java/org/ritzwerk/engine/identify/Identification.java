@@ -223,26 +223,42 @@ public final class Identification {
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
         double typicalSigma = peaks.medianSigma();
-        // the union of the lines' windows within [lo, hi], walked in wavelength order
-        double covered = 0;
-        double end = lo;
-        List<double[]> windows = new ArrayList<>();
+        // The union of the lines' windows within [lo, hi]: the windows' starts and ends sorted apart,
+        // then swept, the length counted where some window is open (no object per window).
+        int n = 0;
+        double[] starts = new double[16];
+        double[] ends = new double[16];
         for (int j = 0; j < lines.size(); j++) {
             double w = lines.wavelength(j);
             double h = tolerance.halfWidth(w, typicalSigma, lines.sigma(j));
             for (double at : lines.positions(j, h)) {
                 if (at + h > lo && at - h < hi) {
-                    windows.add(new double[] {Math.max(lo, at - h), Math.min(hi, at + h)});
+                    if (n == starts.length) {
+                        starts = java.util.Arrays.copyOf(starts, 2 * n);
+                        ends = java.util.Arrays.copyOf(ends, 2 * n);
+                    }
+                    starts[n] = Math.max(lo, at - h);
+                    ends[n++] = Math.min(hi, at + h);
                 }
             }
         }
-        windows.sort((a, b) -> Double.compare(a[0], b[0]));
-        for (double[] window : windows) {
-            if (window[1] <= end) {
-                continue;
+        java.util.Arrays.sort(starts, 0, n);
+        java.util.Arrays.sort(ends, 0, n);
+        double covered = 0;
+        int open = 0;
+        double since = lo;
+        for (int a = 0, b = 0; b < n;) {
+            if (a < n && starts[a] <= ends[b]) {
+                if (open++ == 0) {
+                    since = starts[a];
+                }
+                a++;
+            } else {
+                if (--open == 0) {
+                    covered += ends[b] - since;
+                }
+                b++;
             }
-            covered += window[1] - Math.max(window[0], end);
-            end = window[1];
         }
         double free = (hi - lo) - covered;
         return free > 0.01 * (hi - lo) ? unexplained / free : 0;
