@@ -511,7 +511,7 @@ final class IdentifyCommand implements Callable<Integer> {
         int stray = 0;
         for (int i = 0; i < positions.length; i++) {
             notShown += result.speciesNotShown(i) ? 1 : 0;
-            stray += result.matchedByOdds(i) && !result.speciesNotShown(i) && result.mayBeStray(i) ? 1 : 0;
+            stray += result.ambiguousAsStray(i) ? 1 : 0;
         }
         List<String> why = new ArrayList<>(2);
         if (notShown > 0) {

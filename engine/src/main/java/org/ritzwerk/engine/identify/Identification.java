@@ -199,6 +199,15 @@ public final class Identification {
     }
 
     /**
+     * @param i peak index
+     * @return whether the peak is {@link #AMBIGUOUS} only because a stray explains it about as well
+     *         ({@link #mayBeStray}): matched by its odds, and its species shown
+     */
+    public boolean ambiguousAsStray(int i) {
+        return matchedByOdds(i) && !speciesNotShown(i) && mayBeStray(i);
+    }
+
+    /**
      * @return the density of stray peaks per metre of vacuum wavelength that the unexplained peaks
      *         show ({@link #mayBeStray}), 0 when none is estimated
      */
