@@ -271,6 +271,11 @@ final class Fields implements Serializable {
         return row.getUTF8String(index[0]).toString();
     }
 
+    /** @return the row's id, or null when it has none */
+    String idOrNull(InternalRow row) {
+        return row.isNullAt(index[0]) ? null : row.getUTF8String(index[0]).toString();
+    }
+
     /** @return the row's id in Spark's form, checked not null; valid until the row is read past */
     UTF8String utf8Id(InternalRow row) {
         if (row.isNullAt(index[0])) {

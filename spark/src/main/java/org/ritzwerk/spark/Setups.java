@@ -8,7 +8,6 @@ import java.util.List;
 import java.util.Objects;
 import java.util.function.Function;
 import org.apache.spark.api.java.JavaSparkContext;
-import org.apache.spark.api.java.function.FlatMapFunction;
 import org.apache.spark.broadcast.Broadcast;
 import org.apache.spark.rdd.RDD;
 import org.apache.spark.sql.Column;
@@ -173,10 +172,12 @@ final class Setups {
 
     /**
      * The documented columns present in a table (in documented order, so that Spark reads no
-     * other column) and the id check: a column {@link #COPIES} holding, for a row whose id
-     * another row shares, the number of rows with that id. The ids are counted by Spark in the
-     * same job (one extra read of the id column, a shuffle of the distinct ids, and the repeated
-     * ones broadcast back), so a repeated id costs nothing on the driver.
+     * other column) and the id check as a column: {@link #COPIES} holding, for a row whose id
+     * another row shares, the number of rows with that id. Spark counts the ids in jobs of their
+     * own before the plan's job (a read of the id column, a shuffle of the distinct ids, the
+     * repeated ones broadcast back), so this serves a table joined with another anyway (science
+     * spectra with their calibrations); the operations' own path counts the ids inside its job
+     * instead ({@link RepeatedIds}).
      */
     static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields) {
         return checkedColumns(table, fields, true);
@@ -264,17 +265,14 @@ final class Setups {
     static <P> Dataset<Row> run(Dataset<Row> table, StructType expected, String role, P parameters,
             InternalJob<P> job, StructType output, boolean checkIds) {
         requireBatch(table, role);
-        Dataset<Row> checked = checkedColumns(table, Fields.of(table.schema(), expected, role), checkIds);
-        Fields fields = Fields.of(checked.schema(), expected, role);
-        int copies = checked.schema().fieldIndex(COPIES);
+        Dataset<Row> selected = checkedColumns(table, Fields.of(table.schema(), expected, role), false);
+        Fields fields = Fields.of(selected.schema(), expected, role);
         // Broadcast as Java-serialised bytes: a session configured with Kryo would otherwise
         // serialise the parameter record with Kryo, which cannot make a record.
         Broadcast<byte[]> shared = JavaSparkContext.fromSparkContext(table.sparkSession().sparkContext())
                 .broadcast(serialise(parameters));
-        RDD<InternalRow> in = Catalyst.rows(checked);
-        RDD<InternalRow> out = in.toJavaRDD().mapPartitions(new InternalTask<>(shared, fields, copies, role, job))
-                .rdd();
-        return Catalyst.frame(table.sparkSession(), out, output);
+        return Catalyst.frame(table.sparkSession(),
+                tasks(selected, checkIds, new InternalTask<>(shared, fields, role, job)), output);
     }
 
     /**
@@ -284,20 +282,33 @@ final class Setups {
      * @param <P> the parameter record
      * @param <J> the job's per-partition setup
      */
-    abstract static class PartitionTask<P, J> implements FlatMapFunction<Iterator<InternalRow>, InternalRow> {
+    abstract static class PartitionTask<P, J> implements Serializable {
         private static final long serialVersionUID = 1L;
         private final Broadcast<byte[]> shared;
         final Fields fields;
-        final int copies;
         final String role;
         final J job;
 
-        PartitionTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, J job) {
+        PartitionTask(Broadcast<byte[]> shared, Fields fields, String role, J job) {
             this.shared = shared;
             this.fields = fields;
-            this.copies = copies;
             this.role = role;
             this.job = job;
+        }
+
+        /**
+         * @param rows     the partition's rows
+         * @param repeated the ids that more than one row holds, with their row counts
+         * @return the output rows, lazily
+         */
+        abstract Iterator<InternalRow> call(Iterator<InternalRow> rows, java.util.Map<String, Long> repeated);
+
+        /**
+         * @return how many rows share the row's id, or null when it is unique (or null: the
+         *         operation refuses a null id by itself)
+         */
+        final Long copies(InternalRow row, java.util.Map<String, Long> repeated) {
+            return repeated.isEmpty() ? null : repeated.get(fields.idOrNull(row));
         }
 
         /** @return the parameter record, read from the broadcast (once per partition) */
@@ -316,19 +327,20 @@ final class Setups {
     static final class InternalTask<P> extends PartitionTask<P, InternalJob<P>> {
         private static final long serialVersionUID = 1L;
 
-        InternalTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, InternalJob<P> job) {
-            super(shared, fields, copies, role, job);
+        InternalTask(Broadcast<byte[]> shared, Fields fields, String role, InternalJob<P> job) {
+            super(shared, fields, role, job);
         }
 
         @Override
-        public Iterator<InternalRow> call(Iterator<InternalRow> rows) {
+        Iterator<InternalRow> call(Iterator<InternalRow> rows, java.util.Map<String, Long> repeated) {
             if (!rows.hasNext()) {
                 return rows;
             }
             Function<InternalRow, InternalRow> mapping = job.setUp(parameters(), fields);
             return map(rows, row -> {
-                if (!row.isNullAt(copies)) {
-                    throw repeatedId(fields.id(row), row.getLong(copies), role);
+                Long copies = copies(row, repeated);
+                if (copies != null) {
+                    throw repeatedId(fields.id(row), copies, role);
                 }
                 try {
                     return mapping.apply(row);
@@ -385,14 +397,28 @@ final class Setups {
         } catch (SparkRowException e) {
             return problemTable(table.sparkSession(), e);
         }
-        Dataset<Row> checked = checkedColumns(table, fields, checkIds);
-        Fields read = Fields.of(checked.schema(), expected, role);
-        int copies = checked.schema().fieldIndex(COPIES);
+        Dataset<Row> selected = checkedColumns(table, fields, false);
+        Fields read = Fields.of(selected.schema(), expected, role);
         Broadcast<byte[]> shared = JavaSparkContext.fromSparkContext(table.sparkSession().sparkContext())
                 .broadcast(serialise(parameters));
-        RDD<InternalRow> out = Catalyst.rows(checked).toJavaRDD()
-                .mapPartitions(new CheckTask<>(shared, read, copies, role, job)).rdd();
-        return Catalyst.frame(table.sparkSession(), out, Schemas.PROBLEMS);
+        return Catalyst.frame(table.sparkSession(),
+                tasks(selected, checkIds, new CheckTask<>(shared, read, role, job)), Schemas.PROBLEMS);
+    }
+
+    /**
+     * @param selected the documented columns ({@link #checkedColumns(Dataset, Fields, boolean)}
+     *                 without the check)
+     * @param checkIds whether the tasks learn the repeated ids ({@link RepeatedIds}, in the same
+     *                 job) or take every id as unique
+     * @param task     each partition's work
+     * @return the task's rows; lazy
+     */
+    private static RDD<InternalRow> tasks(Dataset<Row> selected, boolean checkIds, PartitionTask<?, ?> task) {
+        RDD<InternalRow> rows = Catalyst.rows(selected);
+        if (checkIds) {
+            return RepeatedIds.checked(rows, task::call);
+        }
+        return rows.toJavaRDD().mapPartitions(in -> task.call(in, java.util.Map.of())).rdd();
     }
 
     /** @return the problem row of a refusal, {@link Schemas#PROBLEMS} */
@@ -420,12 +446,12 @@ final class Setups {
     static final class CheckTask<P> extends PartitionTask<P, CheckJob<P>> {
         private static final long serialVersionUID = 1L;
 
-        CheckTask(Broadcast<byte[]> shared, Fields fields, int copies, String role, CheckJob<P> job) {
-            super(shared, fields, copies, role, job);
+        CheckTask(Broadcast<byte[]> shared, Fields fields, String role, CheckJob<P> job) {
+            super(shared, fields, role, job);
         }
 
         @Override
-        public Iterator<InternalRow> call(Iterator<InternalRow> rows) {
+        Iterator<InternalRow> call(Iterator<InternalRow> rows, java.util.Map<String, Long> repeated) {
             if (!rows.hasNext()) {
                 return rows;
             }
@@ -449,8 +475,9 @@ final class Setups {
                 }
 
                 private void examine(InternalRow row) {
-                    if (!row.isNullAt(copies)) {
-                        found.add(problem(repeatedId(fields.id(row), row.getLong(copies), role)));
+                    Long copies = copies(row, repeated);
+                    if (copies != null) {
+                        found.add(problem(repeatedId(fields.id(row), copies, role)));
                     }
                     try {
                         check.accept(row);

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.Supplier;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.RowFactory;
@@ -355,6 +356,59 @@ class RowFormTest {
                 0.1, 1.0, 5, 0, 6, 5, 5, 1.0, 1.0, 0, new String[] {"Ne I 585.249"}, "test", null, null, null, null,
                 null, new String[0]);
     }
+
+    /**
+     * The id check runs inside the operation's own job: an action on the output of each operation
+     * runs as many Spark jobs with the check on as with it off (a broadcast join of the repeated
+     * ids ran the count and the broadcast as two more jobs before it, planned one after the other
+     * on the driver), and a repeated id is still found across partitions.
+     */
+    @Test
+    void theIdCheckAddsNoJobToAnAction() {
+        SparkSession spark = LocalSpark.session();
+        List<Fixtures.PeakListData> lists = Fixtures.peakLists(SPECIES, 6, 6, 1, 34L);
+        Dataset<Row> peakLists = Fixtures.peakListTable(spark, lists, 3);
+        List<Row> scenes = new ArrayList<>();
+        for (int k = 0; k < 4; k++) {
+            scenes.add(RowFactory.create("scene-" + k, new String[] {"H I"}, null, 8000.0, null, 0.0, 5000.0,
+                    (long) k));
+        }
+        Dataset<Row> sceneTable = spark.createDataFrame(scenes, Schemas.SCENES).repartition(2);
+        SurveySynthesis synthesis = SurveySynthesis.of(SynthesisParameters.linear(640, 670, 100).withModel("qed", 8));
+        for (boolean check : new boolean[] {true, false}) {
+            SurveySynthesis synthesising = synthesis.withIdCheck(check);
+            SurveyIdentification identifying = job().withIdCheck(check);
+            List<Supplier<Dataset<Row>>> outputs = List.of(() -> identifying.identify(peakLists).spectra(),
+                    () -> synthesising.synthesise(sceneTable), () -> synthesising.validate(sceneTable),
+                    () -> identifying.validate(peakLists));
+            List<Long> sizes = List.of((long) lists.size(), (long) scenes.size(), 0L, 0L);
+            List<Integer> jobs = new ArrayList<>();
+            for (int k = 0; k < outputs.size(); k++) {
+                String group = "ritzwerk-id-check-" + check + "-" + k;
+                spark.sparkContext().setJobGroup(group, "one action", false);
+                try {
+                    // The rows written out, not counted: a count may let Spark skip the operation's work.
+                    assertEquals(sizes.get(k), outputs.get(k).get().collectAsList().size());
+                    jobs.add(spark.sparkContext().statusTracker().getJobIdsForGroup(group).length);
+                } finally {
+                    spark.sparkContext().clearJobGroup();
+                }
+            }
+            if (check) {
+                checkedJobs = jobs;
+            } else {
+                assertEquals(jobs, checkedJobs, "Spark jobs per action with the id check, and without it");
+            }
+        }
+        // A repeat whose two rows lie in different partitions.
+        List<Row> repeated = List.of(scenes.get(0), scenes.get(1), scenes.get(0));
+        String message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(
+                spark.createDataFrame(repeated, Schemas.SCENES).repartition(3)).count());
+        assertTrue(message.contains("row 'scene-0', field 'id': the scene table has 2 rows with this id"), message);
+    }
+
+    /** The job counts with the id check on, for the comparison with it off. */
+    private List<Integer> checkedJobs;
 
     @Test
     void anOperationRunsNothingUntilAnAction() {

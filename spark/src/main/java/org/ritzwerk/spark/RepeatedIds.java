@@ -1,0 +1,135 @@
+package org.ritzwerk.spark;
+
+import java.io.Serializable;
+import java.util.HashMap;
+import java.util.Iterator;
+import java.util.List;
+import java.util.Map;
+import org.apache.spark.Dependency;
+import org.apache.spark.NarrowDependency;
+import org.apache.spark.OneToOneDependency;
+import org.apache.spark.Partition;
+import org.apache.spark.TaskContext;
+import org.apache.spark.api.java.JavaPairRDD;
+import org.apache.spark.rdd.RDD;
+import org.apache.spark.sql.catalyst.InternalRow;
+import scala.Tuple2;
+import scala.jdk.javaapi.CollectionConverters;
+import scala.reflect.ClassTag;
+import scala.reflect.ClassTag$;
+
+/**
+ * The id check of the operations in the same Spark job as their work: the ids are counted by a
+ * shuffle of the ids alone, the ones that more than one row holds go to a single partition, and
+ * every task of the operation reads that partition (usually empty) before its rows. So a table
+ * with unique ids costs one extra read of its rows (a stage that keeps only their ids) and two
+ * small shuffles, in the operation's own job, with nothing collected on the driver and nothing
+ * planned before the action.
+ *
+ * <p>Why not a join: a broadcast join of the repeated ids makes Spark run the count and the
+ * broadcast as two jobs of their own, planned on the driver one after the other before the
+ * operation's job starts; at 10,000 scenes on two cores that waiting took about a third of a pass
+ * and most of what a second core gained (see the README's Spark figures).
+ */
+final class RepeatedIds {
+
+    private static final ClassTag<InternalRow> ROWS = ClassTag$.MODULE$.apply(InternalRow.class);
+
+    private RepeatedIds() {
+    }
+
+    /**
+     * What a task does with its partition's rows, knowing the ids that other rows share.
+     */
+    @FunctionalInterface
+    interface Task extends Serializable {
+        /**
+         * @param rows     the partition's rows
+         * @param repeated each id that more than one row of the table holds, with the number of
+         *                 those rows; empty when every id is unique
+         * @return the output rows, lazily
+         */
+        Iterator<InternalRow> call(Iterator<InternalRow> rows, Map<String, Long> repeated);
+    }
+
+    /**
+     * @param rows the table's documented columns in Spark's form, its id first
+     * @param task what each partition does
+     * @return the task's rows, one partition per partition of {@code rows}; lazy
+     */
+    static RDD<InternalRow> checked(RDD<InternalRow> rows, Task task) {
+        int reducers = Math.max(1, rows.context().defaultParallelism());
+        // The ids are read from the same rows (not from a second plan of the table's id column), so
+        // that a shuffle upstream of the table runs once for both.
+        JavaPairRDD<String, Long> counted = rows.toJavaRDD().filter(row -> !row.isNullAt(0))
+                .mapToPair(row -> new Tuple2<>(row.getUTF8String(0).toString(), 1L))
+                .reduceByKey(Long::sum, reducers);
+        // The repeated ids, shuffled into one partition (the count itself stays spread over the reducers).
+        RDD<Tuple2<String, Long>> repeated = counted.filter(pair -> pair._2() > 1).coalesce(1, true).rdd();
+        return new WithRepeated(rows, repeated, task);
+    }
+
+    /** A partition of the rows beside the one partition of the repeated ids. */
+    private record Pair(int index, Partition rows, Partition repeated) implements Partition {
+        private static final long serialVersionUID = 1L;
+    }
+
+    /** The rows, each partition read after the repeated ids: a narrow dependency on both. */
+    private static final class WithRepeated extends RDD<InternalRow> {
+        private static final long serialVersionUID = 1L;
+        private final RDD<InternalRow> rows;
+        private final RDD<Tuple2<String, Long>> repeated;
+        private final Task task;
+
+        WithRepeated(RDD<InternalRow> rows, RDD<Tuple2<String, Long>> repeated, Task task) {
+            super(rows.context(), CollectionConverters.asScala(List.<Dependency<?>>of(new OneToOneDependency<>(rows),
+                    new AllToFirst<>(repeated))).toSeq(), ROWS);
+            this.rows = rows;
+            this.repeated = repeated;
+            this.task = task;
+        }
+
+        @Override
+        public Partition[] getPartitions() {
+            Partition[] own = rows.partitions();
+            Partition first = repeated.partitions()[0];
+            Partition[] out = new Partition[own.length];
+            for (int k = 0; k < own.length; k++) {
+                out[k] = new Pair(k, own[k], first);
+            }
+            return out;
+        }
+
+        @Override
+        public scala.collection.immutable.Seq<String> getPreferredLocations(Partition split) {
+            return rows.preferredLocations(((Pair) split).rows());
+        }
+
+        @Override
+        public scala.collection.Iterator<InternalRow> compute(Partition split, TaskContext context) {
+            Pair pair = (Pair) split;
+            Map<String, Long> copies = new HashMap<>();
+            scala.collection.Iterator<Tuple2<String, Long>> ids = repeated.iterator(pair.repeated(), context);
+            while (ids.hasNext()) {
+                Tuple2<String, Long> id = ids.next();
+                copies.put(id._1(), id._2());
+            }
+            Iterator<InternalRow> in = CollectionConverters.asJava(rows.iterator(pair.rows(), context));
+            return CollectionConverters.asScala(task.call(in, copies));
+        }
+    }
+
+    /** Every partition of the child reads the parent's first (and only) partition. */
+    private static final class AllToFirst<T> extends NarrowDependency<T> {
+        private static final long serialVersionUID = 1L;
+
+        AllToFirst(RDD<T> parent) {
+            super(parent);
+        }
+
+        @Override
+        public scala.collection.immutable.Seq<Object> getParents(int partitionId) {
+            return CollectionConverters.asScala(List.<Object>of(0)).toSeq();
+        }
+    }
+}
