@@ -88,7 +88,8 @@ final class CalibrateCommand implements Callable<Integer> {
     @Option(names = "--from", paramLabel = "QUANTITY", description = "Prior: the lowest wavelength the detector may see.")
     String from;
 
-    @Option(names = "--to", paramLabel = "QUANTITY", description = "Prior: the highest wavelength the detector may see.")
+    @Option(names = "--to", paramLabel = "QUANTITY", description = "Prior: the highest wavelength the detector may see"
+            + " (above --from, whichever way wavelength runs across the detector).")
     String to;
 
     @Option(names = "--dispersion-range", paramLabel = "MIN,MAX",
@@ -370,8 +371,18 @@ final class CalibrateCommand implements Callable<Integer> {
                 throw new OptionException("--from/--to (" + from + " to " + to + "): " + e.getMessage()
                         + "; give the wavelength range the detector may see", e);
             }
-            lo = Math.min(a, b);
-            hi = Math.max(a, b);
+            if (a >= b) {
+                // --from is the lowest wavelength and --to the highest whichever way wavelength runs across
+                // the detector (its direction is the sign of --dispersion-range): a reversed pair is a slip
+                throw new OptionException("--from " + from + " must lie below --to " + to + " in wavelength (here "
+                        + (a == 0 ? "below the air model's range" : String.format(Locale.ROOT, "%.6g nm", a))
+                        + " against " + (b == 0 ? "below the air model's range" : String.format(Locale.ROOT,
+                                "%.6g nm", b)) + " in " + m.label() + "): --from is the lowest wavelength the detector"
+                        + " may see and --to the highest, whichever way wavelength runs across it (a negative"
+                        + " --dispersion-range says it falls with pixel)");
+            }
+            lo = a;
+            hi = b;
         }
         double dMin = LampMatcher.Prior.none().minDispersion();
         double dMax = LampMatcher.Prior.none().maxDispersion();
