@@ -542,19 +542,22 @@ final class CalibrateCommand implements Callable<Integer> {
         for (int i = 0; i < saturatedPairs.size(); i++) {
             width = Math.max(width, calibration.saturatedPairLabel(i).length());
         }
-        String row = "%8.3f %8.3f %-" + width + "s %14.5f %11.5f %9.4f %s%n";
-        w.printf(Locale.ROOT, "%8s %8s %-" + width + "s %14s %11s %9s %s%n", "pixel", "+-", "line", "solution nm",
-                "resid nm", "resid px", "");
+        // Rows end at their last character (a pair without a note has none), and a residual rounded to
+        // zero has no sign, as in the other commands' text tables (Table).
+        String row = "%8.3f %8.3f %-" + width + "s %14.5f %11s %9s %s";
+        w.println(String.format(Locale.ROOT, "%8s %8s %-" + width + "s %14s %11s %9s", "pixel", "+-", "line",
+                "solution nm", "resid nm", "resid px"));
         for (int i = 0; i < solution.size(); i++) {
-            w.printf(Locale.ROOT, row, solution.pixel(i),
-                    match.pixelSigma(i), calibration.pairLabel(i), solution.wavelengthAt(solution.pixel(i)),
-                    solution.residualNm(i), solution.residualPixels(i), pairNote(solution, i));
+            w.println(String.format(Locale.ROOT, row, solution.pixel(i), match.pixelSigma(i), calibration.pairLabel(i),
+                    solution.wavelengthAt(solution.pixel(i)), residual("%.5f", solution.residualNm(i)),
+                    residual("%.4f", solution.residualPixels(i)), pairNote(solution, i)).stripTrailing());
         }
         for (int i = 0; i < saturatedPairs.size(); i++) {
             double p = saturatedPairs.pixel(i);
-            w.printf(Locale.ROOT, row, p, saturatedPairs.pixelSigma(i),
-                    calibration.saturatedPairLabel(i), solution.wavelengthAt(p), calibration.saturatedResidualNm(i),
-                    calibration.saturatedResidualPixels(i), "saturated, not fitted");
+            w.println(String.format(Locale.ROOT, row, p, saturatedPairs.pixelSigma(i),
+                    calibration.saturatedPairLabel(i), solution.wavelengthAt(p),
+                    residual("%.5f", calibration.saturatedResidualNm(i)),
+                    residual("%.4f", calibration.saturatedResidualPixels(i)), "saturated, not fitted"));
         }
         w.println();
         w.printf(Locale.ROOT, "%10s %14s %12s %12s%n", "pixel", "wavelength nm", "+- nm", "nm/pixel");
@@ -577,6 +580,11 @@ final class CalibrateCommand implements Callable<Integer> {
                             + " too few pairs remain for a degree-%d solution", fittedSaturated, solution.degree()));
         }
         w.flush();
+    }
+
+    /** @return a residual as {@code pattern} writes it, "0.00000" rather than "-0.00000" when it rounds to zero */
+    private static String residual(String pattern, double value) {
+        return Table.unsignedZero(String.format(Locale.ROOT, pattern, value));
     }
 
     /** "rejected" for a pair the fit clipped, "blend" for one widened as an unresolved blend, or both. */

@@ -545,6 +545,27 @@ class CalibrateCommandTest {
     }
 
     /**
+     * The text report's lines carried a trailing space (a pair without a note, and the heading), and
+     * a residual rounded to zero printed as "-0.00000" (a review's leftover). The README's lamp with
+     * seed 4 has a pair (Ne I 650.65 nm) whose residual printed as -0.00000 nm and -0.0000 pixel.
+     */
+    @Test
+    void theTextReportHasNoTrailingSpaceAndNoSignedZero(@TempDir Path dir) throws IOException {
+        Path lamp = dir.resolve("neon-4.csv");
+        assertEquals(0, CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "350,0.14,-1.5e-6", "--pixels",
+                "4096", "--medium", "air", "--temperature", "300", "--resolving-power", "2000", "--read-noise", "5",
+                "--seed", "4", "--out", lamp.toString()).code());
+        CliTest.Run run = CliTest.run("calibrate", lamp.toString(), "--lamp", "Ne I");
+        assertEquals(0, run.code(), run.err());
+        for (String line : run.out().split("\n", -1)) {
+            assertFalse(line.endsWith(" "), "a trailing space: '" + line + "'");
+            assertFalse(line.matches(".*-0\\.0+( .*)?"), "a signed zero: " + line);
+        }
+        assertTrue(run.out().contains("Ne I 650.65281 nm air             650.65281     0.00000    0.0000\n"),
+                run.out());
+    }
+
+    /**
      * A prior whose --from lies above its --to was silently taken the other way round (a review's
      * leftover). --from is the lowest wavelength and --to the highest (the help and the README's
      * options table); which way wavelength runs across the detector is the sign of
