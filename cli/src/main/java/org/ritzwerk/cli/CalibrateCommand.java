@@ -457,17 +457,12 @@ final class CalibrateCommand implements Callable<Integer> {
         int unclassified = lamp.unclassifiedLines();
         if (unclassified > 0) {
             spec.commandLine().getErr().println("note: --min-strength " + minStrength.strip() + " keeps "
-                    + count(unclassified, "line") + " of " + lamp.size() + " whatever their strength: "
+                    + Words.count(unclassified, "line") + " of " + lamp.size() + " whatever their strength: "
                     + (unclassified == 1 ? "it has" : "they have") + " no strength class (a lamp from a level list,"
                     + " or a line list without the strength column)" + (kept.size() == lamp.size()
                             ? ", so the option leaves the lamp as it was" : ""));
         }
         return kept;
-    }
-
-    /** @return "1 peak", "2 peaks" */
-    private static String count(int n, String noun) {
-        return n + " " + noun + (n == 1 ? "" : "s");
     }
 
     /** How the peaks' centroid uncertainties were scaled, for the report's peak line. */
@@ -575,7 +570,7 @@ final class CalibrateCommand implements Callable<Integer> {
                         org.ritzwerk.engine.calibrate.PeakFlag.SATURATED) ? 1 : 0;
             }
             w.printf(Locale.ROOT, "%nNote: %s reached the saturation level; their centroids come from the wings."
-                    + " Paired and left out of the fit: %d%s.%n", count(saturated, "peak"), saturatedPairs.size(),
+                    + " Paired and left out of the fit: %d%s.%n", Words.count(saturated, "peak"), saturatedPairs.size(),
                     fittedSaturated == 0 ? "" : String.format(Locale.ROOT, "; kept in it: %d, since without them"
                             + " too few pairs remain for a degree-%d solution", fittedSaturated, solution.degree()));
         }

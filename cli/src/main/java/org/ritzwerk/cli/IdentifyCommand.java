@@ -468,16 +468,16 @@ final class IdentifyCommand implements Callable<Integer> {
      */
     static String presenceLine(Identification.SpeciesPresence presence, double shiftsTried) {
         String where = shiftsTried > 1 ? " at one shift" : "";
-        String head = String.format(Locale.ROOT, "%s: %d %s matched (%.3g by chance%s)",
-                presence.species().notation(), presence.matched(), presence.matched() == 1 ? "line" : "lines",
-                presence.matchedByChance(), where);
+        String head = String.format(Locale.ROOT, "%s: %s matched (%.3g by chance%s)",
+                presence.species().notation(), Words.count(presence.matched(), "line"), presence.matchedByChance(),
+                where);
         if (presence.strongInRange() == 0) {
             return head + "; no strong line in range, presence not judged";
         }
         String tried = String.format(Locale.ROOT, "%.0f", shiftsTried);
-        return head + String.format(Locale.ROOT, "; %d of %d strong %s in range found (%.3g by chance, "
-                + "chance probability %.2g%s); presence %.2f", presence.strongMatched(), presence.strongInRange(),
-                presence.strongInRange() == 1 ? "line" : "lines", presence.strongByChance(),
+        return head + String.format(Locale.ROOT, "; %d of %s in range found (%.3g by chance, "
+                + "chance probability %.2g%s); presence %.2f", presence.strongMatched(),
+                Words.count(presence.strongInRange(), "strong line"), presence.strongByChance(),
                 presence.chanceProbability(), shiftsTried > 1
                         ? " over the " + tried + (tried.equals("1") ? " shift" : " shifts") + " tried" : "",
                 presence.presence());
@@ -535,8 +535,8 @@ final class IdentifyCommand implements Callable<Integer> {
         if (stray > 0) {
             why.add(stray + " that a stray peak may explain");
         }
-        summary.println(String.format(Locale.ROOT, "%d %s: %d matched, %d ambiguous%s, %d unexplained%s",
-                read.size(), read.size() == 1 ? "peak" : "peaks", result.count(Identification.MATCHED),
+        summary.println(String.format(Locale.ROOT, "%s: %d matched, %d ambiguous%s, %d unexplained%s",
+                Words.count(read.size(), "peak"), result.count(Identification.MATCHED),
                 result.count(Identification.AMBIGUOUS),
                 why.isEmpty() ? "" : " (" + String.join("; ", why) + ")",
                 result.count(Identification.UNEXPLAINED),
@@ -599,7 +599,7 @@ final class IdentifyCommand implements Callable<Integer> {
         }
         String number = String.format(Locale.ROOT, format, value);
         if (lines == 1 || !Double.isFinite(uncertainty)) {
-            return "; " + what + " " + number + " " + unit + " from " + lines + " line" + (lines == 1 ? "" : "s")
+            return "; " + what + " " + number + " " + unit + " from " + Words.count(lines, "line")
                     + (lines == 1 ? " (one line gives no uncertainty)" : " (uncertainty not determined)");
         }
         return "; " + what + " " + number + " +- " + String.format(Locale.ROOT, format, uncertainty) + " " + unit
