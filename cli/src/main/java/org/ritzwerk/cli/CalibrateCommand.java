@@ -88,7 +88,8 @@ final class CalibrateCommand implements Callable<Integer> {
     @Option(names = "--from", paramLabel = "QUANTITY", description = "Prior: the lowest wavelength the detector may see.")
     String from;
 
-    @Option(names = "--to", paramLabel = "QUANTITY", description = "Prior: the highest wavelength the detector may see.")
+    @Option(names = "--to", paramLabel = "QUANTITY", description = "Prior: the highest wavelength the detector may see"
+            + " (above --from, whichever way wavelength runs across the detector).")
     String to;
 
     @Option(names = "--dispersion-range", paramLabel = "MIN,MAX",
@@ -370,8 +371,18 @@ final class CalibrateCommand implements Callable<Integer> {
                 throw new OptionException("--from/--to (" + from + " to " + to + "): " + e.getMessage()
                         + "; give the wavelength range the detector may see", e);
             }
-            lo = Math.min(a, b);
-            hi = Math.max(a, b);
+            if (a >= b) {
+                // --from is the lowest wavelength and --to the highest whichever way wavelength runs across
+                // the detector (its direction is the sign of --dispersion-range): a reversed pair is a slip
+                throw new OptionException("--from " + from + " must lie below --to " + to + " in wavelength (here "
+                        + (a == 0 ? "below the air model's range" : String.format(Locale.ROOT, "%.6g nm", a))
+                        + " against " + (b == 0 ? "below the air model's range" : String.format(Locale.ROOT,
+                                "%.6g nm", b)) + " in " + m.label() + "): --from is the lowest wavelength the detector"
+                        + " may see and --to the highest, whichever way wavelength runs across it (a negative"
+                        + " --dispersion-range says it falls with pixel)");
+            }
+            lo = a;
+            hi = b;
         }
         double dMin = LampMatcher.Prior.none().minDispersion();
         double dMax = LampMatcher.Prior.none().maxDispersion();
@@ -446,17 +457,12 @@ final class CalibrateCommand implements Callable<Integer> {
         int unclassified = lamp.unclassifiedLines();
         if (unclassified > 0) {
             spec.commandLine().getErr().println("note: --min-strength " + minStrength.strip() + " keeps "
-                    + count(unclassified, "line") + " of " + lamp.size() + " whatever their strength: "
+                    + Words.count(unclassified, "line") + " of " + lamp.size() + " whatever their strength: "
                     + (unclassified == 1 ? "it has" : "they have") + " no strength class (a lamp from a level list,"
                     + " or a line list without the strength column)" + (kept.size() == lamp.size()
                             ? ", so the option leaves the lamp as it was" : ""));
         }
         return kept;
-    }
-
-    /** @return "1 peak", "2 peaks" */
-    private static String count(int n, String noun) {
-        return n + " " + noun + (n == 1 ? "" : "s");
     }
 
     /** How the peaks' centroid uncertainties were scaled, for the report's peak line. */
@@ -531,19 +537,22 @@ final class CalibrateCommand implements Callable<Integer> {
         for (int i = 0; i < saturatedPairs.size(); i++) {
             width = Math.max(width, calibration.saturatedPairLabel(i).length());
         }
-        String row = "%8.3f %8.3f %-" + width + "s %14.5f %11.5f %9.4f %s%n";
-        w.printf(Locale.ROOT, "%8s %8s %-" + width + "s %14s %11s %9s %s%n", "pixel", "+-", "line", "solution nm",
-                "resid nm", "resid px", "");
+        // Rows end at their last character (a pair without a note has none), and a residual rounded to
+        // zero has no sign, as in the other commands' text tables (Table).
+        String row = "%8.3f %8.3f %-" + width + "s %14.5f %11s %9s %s";
+        w.println(String.format(Locale.ROOT, "%8s %8s %-" + width + "s %14s %11s %9s", "pixel", "+-", "line",
+                "solution nm", "resid nm", "resid px"));
         for (int i = 0; i < solution.size(); i++) {
-            w.printf(Locale.ROOT, row, solution.pixel(i),
-                    match.pixelSigma(i), calibration.pairLabel(i), solution.wavelengthAt(solution.pixel(i)),
-                    solution.residualNm(i), solution.residualPixels(i), pairNote(solution, i));
+            w.println(String.format(Locale.ROOT, row, solution.pixel(i), match.pixelSigma(i), calibration.pairLabel(i),
+                    solution.wavelengthAt(solution.pixel(i)), residual("%.5f", solution.residualNm(i)),
+                    residual("%.4f", solution.residualPixels(i)), pairNote(solution, i)).stripTrailing());
         }
         for (int i = 0; i < saturatedPairs.size(); i++) {
             double p = saturatedPairs.pixel(i);
-            w.printf(Locale.ROOT, row, p, saturatedPairs.pixelSigma(i),
-                    calibration.saturatedPairLabel(i), solution.wavelengthAt(p), calibration.saturatedResidualNm(i),
-                    calibration.saturatedResidualPixels(i), "saturated, not fitted");
+            w.println(String.format(Locale.ROOT, row, p, saturatedPairs.pixelSigma(i),
+                    calibration.saturatedPairLabel(i), solution.wavelengthAt(p),
+                    residual("%.5f", calibration.saturatedResidualNm(i)),
+                    residual("%.4f", calibration.saturatedResidualPixels(i)), "saturated, not fitted"));
         }
         w.println();
         w.printf(Locale.ROOT, "%10s %14s %12s %12s%n", "pixel", "wavelength nm", "+- nm", "nm/pixel");
@@ -561,11 +570,16 @@ final class CalibrateCommand implements Callable<Integer> {
                         org.ritzwerk.engine.calibrate.PeakFlag.SATURATED) ? 1 : 0;
             }
             w.printf(Locale.ROOT, "%nNote: %s reached the saturation level; their centroids come from the wings."
-                    + " Paired and left out of the fit: %d%s.%n", count(saturated, "peak"), saturatedPairs.size(),
+                    + " Paired and left out of the fit: %d%s.%n", Words.count(saturated, "peak"), saturatedPairs.size(),
                     fittedSaturated == 0 ? "" : String.format(Locale.ROOT, "; kept in it: %d, since without them"
                             + " too few pairs remain for a degree-%d solution", fittedSaturated, solution.degree()));
         }
         w.flush();
+    }
+
+    /** @return a residual as {@code pattern} writes it, "0.00000" rather than "-0.00000" when it rounds to zero */
+    private static String residual(String pattern, double value) {
+        return Table.unsignedZero(String.format(Locale.ROOT, pattern, value));
     }
 
     /** "rejected" for a pair the fit clipped, "blend" for one widened as an unresolved blend, or both. */

@@ -288,15 +288,18 @@ final class IdentifyCommand implements Callable<Integer> {
 
     /**
      * Intensities weigh the matches only when every peak has one: a file where some peaks lack
-     * one has them all left out, which a note says, naming the peaks without.
+     * one has them all left out, which a note says, naming the peaks without by their file lines
+     * (in JSON by their entries of {@code peaks}, as a file on one line has every peak on line 1).
      */
     static java.util.Optional<String> noteMissingIntensities(PeakFiles.Peaks read, Path file) {
         double[] intensities = read.intensities();
         int[] fileLines = read.lines();
+        int[] entries = read.entries();
+        boolean json = entries.length > 0 && entries[0] > 0;
         List<String> without = new java.util.ArrayList<>();
         for (int i = 0; i < intensities.length; i++) {
             if (Double.isNaN(intensities[i])) {
-                without.add(Integer.toString(fileLines[i]));
+                without.add(Integer.toString(json ? entries[i] : fileLines[i]));
             }
         }
         if (without.isEmpty() || without.size() == intensities.length) {
@@ -304,20 +307,30 @@ final class IdentifyCommand implements Callable<Integer> {
         }
         String shown = String.join(", ", without.subList(0, Math.min(10, without.size())))
                 + (without.size() > 10 ? " and " + (without.size() - 10) + " more" : "");
+        boolean one = without.size() == 1;
         return java.util.Optional.of("note: the intensities are not used (the match ignores them): "
                 + without.size() + " of " + intensities.length + " peaks have none (" + file
-                + (without.size() == 1 ? " line " : " lines ") + shown
-                + "); give every peak an intensity, or none");
+                + (json ? (one ? " entry " : " entries ") : (one ? " line " : " lines ")) + shown
+                + (json ? " of 'peaks'" : "") + "); give every peak an intensity, or none");
+    }
+
+    /**
+     * @return where peak {@code k} stands, as the peak reader's own messages begin: {@code file:line: },
+     *         and in JSON its entry too ({@code file:1: entry 3 of 'peaks': })
+     */
+    private static String at(PeakFiles.Peaks read, Path file, int[] fileLines, int[] entries, int k) {
+        return file + ":" + fileLines[k] + ": " + (entries[k] > 0 ? read.where(k) + ": " : "");
     }
 
     /**
      * A peak list holds each peak once: a repeated line (a copy and paste) would count its lines
      * twice and narrow the shift's uncertainty. Refuses every repeat, named by its file line and
-     * the line it repeats (the engine refuses them too, by peak number).
+     * the line it repeats (in JSON by their entries; the engine refuses them too, by peak number).
      */
     static void refuseRepeatedPeaks(PeakFiles.Peaks read, Path file) {
         double[] positions = read.positions();
         int[] fileLines = read.lines();
+        int[] entries = read.entries();
         Integer[] order = new Integer[positions.length];
         for (int i = 0; i < order.length; i++) {
             order[i] = i;
@@ -329,7 +342,8 @@ final class IdentifyCommand implements Callable<Integer> {
             if (positions[order[k]] != positions[order[k - 1]]) {
                 first = order[k];
             } else {
-                repeats.add(file + ":" + fileLines[order[k]] + ": the same position as line " + fileLines[first]);
+                repeats.add(at(read, file, fileLines, entries, order[k]) + "the same position as "
+                        + read.where(first));
             }
         }
         if (!repeats.isEmpty()) {
@@ -349,10 +363,11 @@ final class IdentifyCommand implements Callable<Integer> {
         List<String> bad = new java.util.ArrayList<>();
         double[] uncertainties = read.uncertainties();
         int[] fileLines = read.lines();
+        int[] entries = read.entries();
         for (int i = 0; i < uncertainties.length; i++) {
             double u = uncertainties[i];
             if (u == 0 || Double.isNaN(u)) {
-                bad.add(file + ":" + fileLines[i] + ": the peak's uncertainty is "
+                bad.add(at(read, file, fileLines, entries, i) + "the peak's uncertainty is "
                         + (u == 0 ? "0, which can never match" : "not given, which cannot be weighed"));
             }
         }
@@ -453,16 +468,16 @@ final class IdentifyCommand implements Callable<Integer> {
      */
     static String presenceLine(Identification.SpeciesPresence presence, double shiftsTried) {
         String where = shiftsTried > 1 ? " at one shift" : "";
-        String head = String.format(Locale.ROOT, "%s: %d %s matched (%.3g by chance%s)",
-                presence.species().notation(), presence.matched(), presence.matched() == 1 ? "line" : "lines",
-                presence.matchedByChance(), where);
+        String head = String.format(Locale.ROOT, "%s: %s matched (%.3g by chance%s)",
+                presence.species().notation(), Words.count(presence.matched(), "line"), presence.matchedByChance(),
+                where);
         if (presence.strongInRange() == 0) {
             return head + "; no strong line in range, presence not judged";
         }
         String tried = String.format(Locale.ROOT, "%.0f", shiftsTried);
-        return head + String.format(Locale.ROOT, "; %d of %d strong %s in range found (%.3g by chance, "
-                + "chance probability %.2g%s); presence %.2f", presence.strongMatched(), presence.strongInRange(),
-                presence.strongInRange() == 1 ? "line" : "lines", presence.strongByChance(),
+        return head + String.format(Locale.ROOT, "; %d of %s in range found (%.3g by chance, "
+                + "chance probability %.2g%s); presence %.2f", presence.strongMatched(),
+                Words.count(presence.strongInRange(), "strong line"), presence.strongByChance(),
                 presence.chanceProbability(), shiftsTried > 1
                         ? " over the " + tried + (tried.equals("1") ? " shift" : " shifts") + " tried" : "",
                 presence.presence());
@@ -520,8 +535,8 @@ final class IdentifyCommand implements Callable<Integer> {
         if (stray > 0) {
             why.add(stray + " that a stray peak may explain");
         }
-        summary.println(String.format(Locale.ROOT, "%d %s: %d matched, %d ambiguous%s, %d unexplained%s",
-                read.size(), read.size() == 1 ? "peak" : "peaks", result.count(Identification.MATCHED),
+        summary.println(String.format(Locale.ROOT, "%s: %d matched, %d ambiguous%s, %d unexplained%s",
+                Words.count(read.size(), "peak"), result.count(Identification.MATCHED),
                 result.count(Identification.AMBIGUOUS),
                 why.isEmpty() ? "" : " (" + String.join("; ", why) + ")",
                 result.count(Identification.UNEXPLAINED),
@@ -584,7 +599,7 @@ final class IdentifyCommand implements Callable<Integer> {
         }
         String number = String.format(Locale.ROOT, format, value);
         if (lines == 1 || !Double.isFinite(uncertainty)) {
-            return "; " + what + " " + number + " " + unit + " from " + lines + " line" + (lines == 1 ? "" : "s")
+            return "; " + what + " " + number + " " + unit + " from " + Words.count(lines, "line")
                     + (lines == 1 ? " (one line gives no uncertainty)" : " (uncertainty not determined)");
         }
         return "; " + what + " " + number + " +- " + String.format(Locale.ROOT, format, uncertainty) + " " + unit

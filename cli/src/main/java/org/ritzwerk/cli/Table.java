@@ -49,11 +49,17 @@ final class Table {
         static Column number(String key, String heading, String pattern) {
             return new Column(key, heading, value -> unsignedZero(String.format(Locale.ROOT, pattern, value)));
         }
+    }
 
-        /** "-0.000000" (a tiny negative value rounded away) reads "0.000000". */
-        private static String unsignedZero(String text) {
-            return text.startsWith("-") && text.chars().noneMatch(c -> c >= '1' && c <= '9') ? text.substring(1) : text;
-        }
+    /**
+     * A formatted number without the sign of a rounded zero: "-0.000000" (a tiny negative value, or
+     * -0.0, rounded away) reads "0.000000"; anything with a non-zero digit is kept as it is.
+     *
+     * @param text a number as {@link String#format} wrote it
+     * @return the text
+     */
+    static String unsignedZero(String text) {
+        return text.startsWith("-") && text.chars().noneMatch(c -> c >= '1' && c <= '9') ? text.substring(1) : text;
     }
 
     private final List<Column> columns;

@@ -544,6 +544,62 @@ class CalibrateCommandTest {
         assertTrue(hertz.err().contains("--from/--to (5 GHz to 10 GHz): "), hertz.err());
     }
 
+    /**
+     * The text report's lines carried a trailing space (a pair without a note, and the heading), and
+     * a residual rounded to zero printed as "-0.00000" (a review's leftover). The README's lamp with
+     * seed 4 has a pair (Ne I 650.65 nm) whose residual printed as -0.00000 nm and -0.0000 pixel.
+     */
+    @Test
+    void theTextReportHasNoTrailingSpaceAndNoSignedZero(@TempDir Path dir) throws IOException {
+        Path lamp = dir.resolve("neon-4.csv");
+        assertEquals(0, CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "350,0.14,-1.5e-6", "--pixels",
+                "4096", "--medium", "air", "--temperature", "300", "--resolving-power", "2000", "--read-noise", "5",
+                "--seed", "4", "--out", lamp.toString()).code());
+        CliTest.Run run = CliTest.run("calibrate", lamp.toString(), "--lamp", "Ne I");
+        assertEquals(0, run.code(), run.err());
+        for (String line : run.out().split("\n", -1)) {
+            assertFalse(line.endsWith(" "), "a trailing space: '" + line + "'");
+            assertFalse(line.matches(".*-0\\.0+( .*)?"), "a signed zero: " + line);
+        }
+        assertTrue(run.out().contains("Ne I 650.65281 nm air             650.65281     0.00000    0.0000\n"),
+                run.out());
+    }
+
+    /**
+     * A prior whose --from lies above its --to was silently taken the other way round (a review's
+     * leftover). --from is the lowest wavelength and --to the highest (the help and the README's
+     * options table); which way wavelength runs across the detector is the sign of
+     * --dispersion-range. So a reversed pair is refused naming both options and values, and a
+     * falling dispersion is calibrated with the pair in order.
+     */
+    @Test
+    void aPriorWhoseFromLiesAboveItsToIsRefused(@TempDir Path dir) throws IOException {
+        Path falling = dir.resolve("falling.csv");
+        assertEquals(0, CliTest.run("synth", "--lines", "lamp-ne-i", "--dispersion", "700,-0.06", "--pixels",
+                String.valueOf(PIXELS), "--medium", "air", "--temperature", "400", "--resolving-power", "4000",
+                "--read-noise", "4", "--seed", "5", "--out", falling.toString()).code());
+        CliTest.Run reversed = CliTest.run("calibrate", falling.toString(), "--lamp", "Ne I", "--from", "720 nm",
+                "--to", "560 nm", "--dispersion-range", "-0.07,-0.05");
+        assertEquals(2, reversed.code(), reversed.out() + reversed.err());
+        // (a wavelength without a medium is in vacuum; the prior is in the solution's medium, air)
+        assertTrue(reversed.err().contains("--from 720 nm must lie below --to 560 nm in wavelength (here 719.802 nm"
+                + " against 559.845 nm in air): --from is the lowest wavelength"), reversed.err());
+        CliTest.Run same = CliTest.run("calibrate", falling.toString(), "--lamp", "Ne I", "--from", "600 nm", "--to",
+                "600 nm");
+        assertEquals(2, same.code(), same.out() + same.err());
+        assertTrue(same.err().contains("--from 600 nm must lie below --to 600 nm"), same.err());
+        // In frequency the order is the other way: 500 THz is the longer wavelength.
+        CliTest.Run hertz = CliTest.run("calibrate", falling.toString(), "--lamp", "Ne I", "--from", "500 THz",
+                "--to", "600 THz");
+        assertEquals(2, hertz.code(), hertz.out() + hertz.err());
+        assertTrue(hertz.err().contains("--from 500 THz must lie below --to 600 THz in wavelength (here 599.419 nm"
+                + " against 499.515 nm in air)"), hertz.err());
+        CliTest.Run ordered = CliTest.run("calibrate", falling.toString(), "--lamp", "Ne I", "--from", "560 nm",
+                "--to", "720 nm", "--dispersion-range", "-0.07,-0.05");
+        assertEquals(0, ordered.code(), ordered.err());
+        assertTrue(ordered.out().contains("Solution: degree "), ordered.out());
+    }
+
     @Test
     void outputsAreCheckedBeforeAnyWorkAndOldFilesSurviveAFailure(@TempDir Path dir) throws IOException {
         Path spectrum = lampSpectrum(dir, 13, false);

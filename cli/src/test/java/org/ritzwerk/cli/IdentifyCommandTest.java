@@ -76,6 +76,21 @@ class IdentifyCommandTest {
         assertFalse(CliTest.run("identify", all.toString(), "--species", "H I").err().contains("intensities"));
     }
 
+    /** In a JSON file on one line the note named "line 1" for every peak; it names their entries of 'peaks'. */
+    @Test
+    void peaksWithoutIntensityInAJsonFileAreNamedByTheirEntries(@TempDir Path dir) throws IOException {
+        Path peaks = dir.resolve("some.json");
+        Files.writeString(peaks, "{\"format\":\"ritzwerk-peaks\",\"formatVersion\":1,\"id\":\"some\",\"title\":"
+                + "\"t\",\"source\":\"invented\",\"provenance\":\"measured\",\"version\":\"1\",\"positionUnit\":"
+                + "\"nm\",\"medium\":\"air\",\"peaks\":[{\"position\":410.174,\"uncertainty\":0.003,\"intensity\":80},"
+                + "{\"position\":434.047,\"uncertainty\":0.003},{\"position\":486.135,\"uncertainty\":0.003},"
+                + "{\"position\":656.279,\"uncertainty\":0.003,\"intensity\":1500}]}", StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.err().contains("2 of 4 peaks have none (" + peaks + " entries 2, 3 of 'peaks'); give every"
+                + " peak an intensity, or none"), run.err());
+    }
+
     /**
      * Peaks of a gas that was not offered (30 seeded random peaks over 400-700 nm, 0.1 nm
      * uncertainty, and two 0.15 nm from lines of the list) against an invented list of twelve

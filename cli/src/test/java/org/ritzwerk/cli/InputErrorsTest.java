@@ -108,6 +108,31 @@ class InputErrorsTest {
     }
 
     /**
+     * In a JSON peaks file on one line every peak is on line 1, so the repeats and the missing
+     * uncertainties were all named "line 1" (a review's leftover); they are named by their entry of
+     * 'peaks', as the reader's own JSON errors name them.
+     */
+    @Test
+    void peaksOfAOneLineJsonFileAreNamedByTheirEntries(@TempDir Path dir) throws IOException {
+        String head = "{\"format\":\"ritzwerk-peaks\",\"formatVersion\":1,\"id\":\"three\",\"title\":\"t\","
+                + "\"source\":\"invented\",\"provenance\":\"measured\",\"version\":\"1\",\"positionUnit\":\"nm\","
+                + "\"medium\":\"air\",\"peaks\":[";
+        Path peaks = dir.resolve("three.json");
+        Files.writeString(peaks, head + "{\"position\":656.30,\"uncertainty\":0.01},{\"position\":486.13,"
+                + "\"uncertainty\":0.01},{\"position\":656.30,\"uncertainty\":0.01}]}\n");
+        CliTest.Run run = CliTest.run("identify", peaks.toString(), "--species", "H I");
+        assertEquals(2, run.code(), run.err());
+        assertTrue(run.err().contains("1 peak(s) repeat another's position:\n  " + peaks + ":1: entry 3 of 'peaks':"
+                + " the same position as entry 1 of 'peaks'\n"), run.err());
+        Path zero = dir.resolve("zero.json");
+        Files.writeString(zero, head + "{\"position\":656.28,\"uncertainty\":0.004},{\"position\":486.13,"
+                + "\"uncertainty\":0}]}\n");
+        CliTest.Run sigma = CliTest.run("identify", zero.toString(), "--species", "H");
+        assertEquals(2, sigma.code(), sigma.err());
+        assertTrue(sigma.err().contains(zero + ":1: entry 2 of 'peaks': the peak's uncertainty is 0"), sigma.err());
+    }
+
+    /**
      * Found by a second review: input that reached an engine precondition (exit 1) or was taken
      * twice. A continuum that is zero on the grid, a level list whose label and J column disagree
      * (also caught by {@code data check}), and a species or line list named twice are exit-2

@@ -49,7 +49,7 @@ public final class PeakFiles {
     /**
      * Peaks as read, in file order: positions in {@link #unit()} (and {@link #medium()} for
      * wavelengths), uncertainties, intensities and widths with NaN where not given, and the file
-     * line of each peak for messages.
+     * line of each peak and, in JSON, its entry of {@code peaks} for messages ({@link #where}).
      *
      * @param id          the file's id
      * @param unit        the position unit
@@ -59,9 +59,11 @@ public final class PeakFiles {
      * @param intensities intensities (NaN when not given)
      * @param widths      widths (NaN when not given)
      * @param lines       the 1-based file line of each peak
+     * @param entries     the 1-based entry of each peak in a JSON file's {@code peaks} array, 0 for a
+     *                    CSV file (a JSON file on one line has every peak on line 1)
      */
     public record Peaks(String id, Unit unit, Medium medium, double[] positions, double[] uncertainties,
-            double[] intensities, double[] widths, int[] lines) {
+            double[] intensities, double[] widths, int[] lines, int[] entries) {
 
         /**
          * Copies the arrays: the record is immutable, its accessors return copies.
@@ -74,6 +76,9 @@ public final class PeakFiles {
          * @param intensities   intensities (NaN when not given)
          * @param widths        widths (NaN when not given)
          * @param lines         the 1-based file line of each peak
+         * @param entries       the 1-based entry of each peak in a JSON file's {@code peaks} array, 0 for
+         *                      a CSV file
+         * @throws IllegalArgumentException when {@code entries} is not as long as {@code lines}
          */
         public Peaks {
             positions = positions.clone();
@@ -81,6 +86,28 @@ public final class PeakFiles {
             intensities = intensities.clone();
             widths = widths.clone();
             lines = lines.clone();
+            entries = entries.clone();
+            if (entries.length != lines.length) {
+                throw new IllegalArgumentException("entries must give one entry per peak (" + lines.length
+                        + "), got " + entries.length);
+            }
+        }
+
+        /**
+         * Peaks of a CSV file, or of none: every entry 0.
+         *
+         * @param id            the file's id
+         * @param unit          the position unit
+         * @param medium        the medium of wavelength positions, else null
+         * @param positions     positions
+         * @param uncertainties standard uncertainties (NaN when not given)
+         * @param intensities   intensities (NaN when not given)
+         * @param widths        widths (NaN when not given)
+         * @param lines         the 1-based file line of each peak
+         */
+        public Peaks(String id, Unit unit, Medium medium, double[] positions, double[] uncertainties,
+                double[] intensities, double[] widths, int[] lines) {
+            this(id, unit, medium, positions, uncertainties, intensities, widths, lines, new int[lines.length]);
         }
 
         /** @return a copy of the positions */
@@ -113,20 +140,40 @@ public final class PeakFiles {
             return lines.clone();
         }
 
+        /** @return a copy of the 1-based JSON entries (0 for a CSV file) */
+        @Override
+        public int[] entries() {
+            return entries.clone();
+        }
+
+        /**
+         * Where peak {@code k} stands in its file, as the reader's own messages name a row: its line
+         * in CSV ({@code "line 12"}), its entry in JSON ({@code "entry 3 of 'peaks'"}), since every
+         * entry of a JSON file on one line is on line 1.
+         *
+         * @param k the peak, 0-based
+         * @return the place
+         * @throws IndexOutOfBoundsException unless 0 &lt;= k &lt; {@link #size()}
+         */
+        public String where(int k) {
+            return entries[k] > 0 ? "entry " + entries[k] + " of '" + SPEC.arrayKey() + "'" : "line " + lines[k];
+        }
+
         @Override
         public boolean equals(Object o) {
             return o instanceof Peaks p && java.util.Objects.equals(id, p.id) && unit.equals(p.unit)
                     && java.util.Objects.equals(medium, p.medium) && java.util.Arrays.equals(positions, p.positions)
                     && java.util.Arrays.equals(uncertainties, p.uncertainties)
                     && java.util.Arrays.equals(intensities, p.intensities) && java.util.Arrays.equals(widths, p.widths)
-                    && java.util.Arrays.equals(lines, p.lines);
+                    && java.util.Arrays.equals(lines, p.lines) && java.util.Arrays.equals(entries, p.entries);
         }
 
         @Override
         public int hashCode() {
             return java.util.Objects.hash(id, unit, medium, java.util.Arrays.hashCode(positions),
                     java.util.Arrays.hashCode(uncertainties), java.util.Arrays.hashCode(intensities),
-                    java.util.Arrays.hashCode(widths), java.util.Arrays.hashCode(lines));
+                    java.util.Arrays.hashCode(widths), java.util.Arrays.hashCode(lines),
+                    java.util.Arrays.hashCode(entries));
         }
 
         @Override
@@ -180,7 +227,7 @@ public final class PeakFiles {
      */
     public static Peaks read(String text, String source) {
         String name = source;
-        // Rows become columns of numbers as they are read (36 bytes a peak), not a map a row.
+        // Rows become columns of numbers as they are read (40 bytes a peak), not a map a row.
         Columns columns = new Columns();
         TabularFiles.Parsed p = TabularFiles.isJson(name, text) ? TabularFiles.parseJson(SPEC, text, name, columns)
                 : TabularFiles.parseCsv(SPEC, text, name, columns);
@@ -194,6 +241,7 @@ public final class PeakFiles {
         double[] intensities = Arrays.copyOf(columns.intensities, n);
         double[] widths = Arrays.copyOf(columns.widths, n);
         int[] lines = Arrays.copyOf(columns.lines, n);
+        int[] entries = Arrays.copyOf(columns.entries, n);
         if (n == 0 && p.problems.isEmpty()) {
             p.problem(1, 0, "data.empty", "the file has no peaks", "");
         }
@@ -210,7 +258,7 @@ public final class PeakFiles {
         }
         p.throwIfAny();
         return new Peaks(p.header.get("id"), unit, unit.kind() == Kind.WAVELENGTH ? medium : null, positions,
-                uncertainties, intensities, widths, lines);
+                uncertainties, intensities, widths, lines, entries);
     }
 
     /** The peaks' columns, filled row by row as the file is read. */
@@ -220,6 +268,7 @@ public final class PeakFiles {
         double[] intensities = new double[64];
         double[] widths = new double[64];
         int[] lines = new int[64];
+        int[] entries = new int[64];
         int size;
 
         @Override
@@ -231,6 +280,7 @@ public final class PeakFiles {
                 intensities = Arrays.copyOf(intensities, grown);
                 widths = Arrays.copyOf(widths, grown);
                 lines = Arrays.copyOf(lines, grown);
+                entries = Arrays.copyOf(entries, grown);
             }
             int k = size++;
             positions[k] = p.number(row, "position", true);
@@ -248,6 +298,7 @@ public final class PeakFiles {
             widths[k] = p.number(row, "width", false);
             p.text(row, "note");
             lines[k] = row.line();
+            entries[k] = row.entry();
         }
     }
 
@@ -256,7 +307,7 @@ public final class PeakFiles {
      * reads back as the same double, so {@link #read(String, String)} gives the same values bit
      * for bit (NaN, "not given", as an empty field).
      *
-     * @param peaks      the peaks (their {@code lines} are not written)
+     * @param peaks      the peaks (their {@code lines} and {@code entries} are not written)
      * @param title      the file's title
      * @param source     where the peaks come from (instrument, run, date)
      * @param provenance published, from-memory, computed or measured

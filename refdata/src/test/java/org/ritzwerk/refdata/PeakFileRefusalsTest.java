@@ -60,4 +60,23 @@ class PeakFileRefusalsTest {
                 + " \"NaN\""), e.getMessage());
         assertTrue(e.getMessage().contains("entry 3 of 'peaks': unknown field 'colour'"), e.getMessage());
     }
+
+    /**
+     * The peaks read carry their place for a caller's own messages (a repeated peak, a missing
+     * intensity): a JSON entry by its place in 'peaks', as the messages above, since every entry of a
+     * one-line file is on line 1; a CSV row by its line.
+     */
+    @Test
+    void eachPeakIsNamedAsTheReaderNamesItsRow() {
+        PeakFiles.Peaks json = PeakFiles.read(JSON_HEAD + "\"peaks\":[{\"position\":486.13},{\"position\":656.28},"
+                + "{\"position\":486.13}]}", "one-line.json");
+        assertEquals(1, json.lines()[2]);
+        assertEquals("entry 3 of 'peaks'", json.where(2));
+        assertEquals(3, json.entries()[2]);
+        PeakFiles.Peaks csv = PeakFiles.read(HEADER + "position\n486.13\n656.28\n", "rows.csv");
+        assertEquals("line 11", csv.where(1));
+        assertEquals(0, csv.entries()[1]);
+        assertThrows(IllegalArgumentException.class, () -> new PeakFiles.Peaks("a", csv.unit(), csv.medium(),
+                csv.positions(), csv.uncertainties(), csv.intensities(), csv.widths(), csv.lines(), new int[1]));
+    }
 }
