@@ -597,7 +597,8 @@ final class IdentifyCommand implements Callable<Integer> {
         if (lines == 0) {
             return "; no " + what + " in the searched range lets any line match, so none is given";
         }
-        String number = String.format(Locale.ROOT, format, value);
+        // A shift that rounds to zero prints unsigned, as the tables print such numbers.
+        String number = Table.unsignedZero(String.format(Locale.ROOT, format, value));
         if (lines == 1 || !Double.isFinite(uncertainty)) {
             return "; " + what + " " + number + " " + unit + " from " + Words.count(lines, "line")
                     + (lines == 1 ? " (one line gives no uncertainty)" : " (uncertainty not determined)");

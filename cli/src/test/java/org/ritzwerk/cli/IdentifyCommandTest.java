@@ -302,6 +302,26 @@ class IdentifyCommandTest {
         }
     }
 
+    /** A velocity that rounds to zero at the printed digits reads 0.000, not -0.000. */
+    @Test
+    void aShiftThatRoundsToZeroPrintsUnsigned(@TempDir Path dir) throws IOException {
+        // Invented peaks: Balmer multiplets of the engine moved by -0.2 m/s (-0.0002 km/s), in vacuum.
+        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(NuclearData.builtIn().nucleus(Species.parse("H I")),
+                Tier.QED);
+        LineCatalog rest = Candidates.inWindow(400e-9, 700e-9).hydrogenLike(Species.parse("H I"), hydrogen, 6, false)
+                .build().catalog();
+        StringBuilder rows = new StringBuilder("position,uncertainty\n");
+        for (int j = 0; j < rest.size(); j++) {
+            rows.append(String.format(java.util.Locale.ROOT, "%.9f,0.001%n",
+                    rest.wavelength(j) * (1 - 0.2 / 299_792_458.0) * 1e9));
+        }
+        Path file = dir.resolve("still.csv");
+        Files.writeString(file, HEADER.replace("# medium: air", "# medium: vacuum") + rows, StandardCharsets.UTF_8);
+        CliTest.Run run = CliTest.run("identify", file.toString(), "--species", "H I", "--search-velocity", "100");
+        assertEquals(0, run.code(), run.err());
+        assertTrue(run.out().contains("; velocity 0.000 +- "), run.out());
+    }
+
     @Test
     void theCommandGivesWhatTheLibraryJobGives(@TempDir Path dir) throws IOException {
         // Invented peaks: four Balmer multiplets of the engine moved by 25 km/s, in air, and a stray peak.
