@@ -400,6 +400,9 @@ class RowFormTest {
                 assertEquals(jobs, checkedJobs, "Spark jobs per action with the id check, and without it");
             }
         }
+        // An empty table, as made and as filtered to nothing after a shuffle.
+        assertEquals(0, synthesis.synthesise(spark.createDataFrame(List.<Row>of(), Schemas.SCENES)).count());
+        assertEquals(0, synthesis.synthesise(sceneTable.where("id = 'none'")).collectAsList().size());
         // A repeat whose two rows lie in different partitions.
         List<Row> repeated = List.of(scenes.get(0), scenes.get(1), scenes.get(0));
         String message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(
