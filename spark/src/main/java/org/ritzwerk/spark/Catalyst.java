@@ -19,7 +19,9 @@ import org.apache.spark.sql.catalyst.util.ArrayData;
 import org.apache.spark.sql.catalyst.util.GenericArrayData;
 import org.apache.spark.sql.types.StructType;
 import org.apache.spark.unsafe.types.UTF8String;
+import org.apache.spark.sql.execution.exchange.Exchange;
 import scala.jdk.javaapi.CollectionConverters;
+import scala.jdk.javaapi.FunctionConverters;
 import scala.reflect.ClassTag;
 import scala.reflect.ClassTag$;
 
@@ -103,6 +105,17 @@ final class Catalyst {
         public scala.collection.Iterator<InternalRow> compute(Partition split, TaskContext context) {
             return planned.iterator(split, context);
         }
+    }
+
+    /**
+     * @param table a table of a classic session
+     * @return whether Spark's physical plan of the table holds an exchange (a shuffle or a
+     *         broadcast; a cached table is a leaf, whatever made it), found by planning the table
+     *         on the driver without running anything
+     */
+    static boolean exchanges(Dataset<Row> table) {
+        return classic(table).queryExecution().sparkPlan()
+                .find(FunctionConverters.asScalaFromFunction(plan -> plan instanceof Exchange)).isDefined();
     }
 
     private static org.apache.spark.sql.classic.Dataset<Row> classic(Dataset<Row> table) {

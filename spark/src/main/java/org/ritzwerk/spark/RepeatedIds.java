@@ -12,19 +12,23 @@ import org.apache.spark.Partition;
 import org.apache.spark.TaskContext;
 import org.apache.spark.api.java.JavaPairRDD;
 import org.apache.spark.rdd.RDD;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Row;
 import org.apache.spark.sql.catalyst.InternalRow;
 import scala.Tuple2;
 import scala.jdk.javaapi.CollectionConverters;
 import scala.reflect.ClassTag;
 import scala.reflect.ClassTag$;
 
+import static org.apache.spark.sql.functions.col;
+
 /**
  * The id check of the operations in the same Spark job as their work: the ids are counted by a
  * shuffle of the ids alone, the ones that more than one row holds go to a single partition, and
  * every task of the operation reads that partition (usually empty) before its rows. So a table
- * with unique ids costs one extra read of its rows (a stage that keeps only their ids) and two
- * small shuffles, in the operation's own job, with nothing collected on the driver and nothing
- * planned before the action.
+ * with unique ids costs one extra read of its id column (or of its rows, where its plan shuffles)
+ * and two small shuffles, in the operation's own job, with nothing collected on the driver and
+ * nothing run before the action.
  *
  * <p>Why not a join: a broadcast join of the repeated ids makes Spark run the count and the
  * broadcast as two jobs of their own, planned on the driver one after the other before the
@@ -53,15 +57,19 @@ final class RepeatedIds {
     }
 
     /**
-     * @param rows the table's documented columns in Spark's form, its id first
-     * @param task what each partition does
+     * @param selected the table's documented columns, its id first
+     * @param rows     {@code selected}'s rows in Spark's form
+     * @param task     what each partition does
      * @return the task's rows, one partition per partition of {@code rows}; lazy
      */
-    static RDD<InternalRow> checked(RDD<InternalRow> rows, Task task) {
+    static RDD<InternalRow> checked(Dataset<Row> selected, RDD<InternalRow> rows, Task task) {
         int reducers = Math.max(1, rows.context().defaultParallelism());
-        // The ids are read from the same rows (not from a second plan of the table's id column), so
-        // that a shuffle upstream of the table runs once for both.
-        JavaPairRDD<String, Long> counted = rows.toJavaRDD().filter(row -> !row.isNullAt(0))
+        // The ids alone where the table is read from a source or a cache (a columnar source or
+        // cache then reads that one column); the same rows where the table's plan shuffles, so
+        // that the shuffle runs once for both (a second plan of the id column would run it again).
+        RDD<InternalRow> ids = Catalyst.exchanges(selected) ? rows
+                : Catalyst.rows(selected.select(col(selected.columns()[0])));
+        JavaPairRDD<String, Long> counted = ids.toJavaRDD().filter(row -> !row.isNullAt(0))
                 .mapToPair(row -> new Tuple2<>(row.getUTF8String(0).toString(), 1L))
                 .reduceByKey(Long::sum, reducers);
         // The repeated ids, shuffled into one partition (the count itself stays spread over the reducers).

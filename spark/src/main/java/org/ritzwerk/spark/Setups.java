@@ -416,7 +416,7 @@ final class Setups {
     private static RDD<InternalRow> tasks(Dataset<Row> selected, boolean checkIds, PartitionTask<?, ?> task) {
         RDD<InternalRow> rows = Catalyst.rows(selected);
         if (checkIds) {
-            return RepeatedIds.checked(rows, task::call);
+            return RepeatedIds.checked(selected, rows, task::call);
         }
         return rows.toJavaRDD().mapPartitions(in -> task.call(in, java.util.Map.of())).rdd();
     }
