@@ -302,14 +302,22 @@ class IdentifyCommandTest {
         }
     }
 
+    /** @return the engine's H I model at the QED tier */
+    private static HydrogenLikeModel hydrogen() {
+        return HydrogenLikeModel.of(NuclearData.builtIn().nucleus(Species.parse("H I")), Tier.QED);
+    }
+
+    /** @return the engine's H I multiplets between 400 and 700 nm (vacuum), n up to 6: the Balmer lines */
+    private static LineCatalog balmerMultiplets(HydrogenLikeModel hydrogen) {
+        return Candidates.inWindow(400e-9, 700e-9).hydrogenLike(Species.parse("H I"), hydrogen, 6, false).build()
+                .catalog();
+    }
+
     /** A velocity that rounds to zero at the printed digits reads 0.000, not -0.000. */
     @Test
     void aShiftThatRoundsToZeroPrintsUnsigned(@TempDir Path dir) throws IOException {
         // Invented peaks: Balmer multiplets of the engine moved by -0.2 m/s (-0.0002 km/s), in vacuum.
-        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(NuclearData.builtIn().nucleus(Species.parse("H I")),
-                Tier.QED);
-        LineCatalog rest = Candidates.inWindow(400e-9, 700e-9).hydrogenLike(Species.parse("H I"), hydrogen, 6, false)
-                .build().catalog();
+        LineCatalog rest = balmerMultiplets(hydrogen());
         StringBuilder rows = new StringBuilder("position,uncertainty\n");
         for (int j = 0; j < rest.size(); j++) {
             rows.append(String.format(java.util.Locale.ROOT, "%.9f,0.001%n",
@@ -325,10 +333,8 @@ class IdentifyCommandTest {
     @Test
     void theCommandGivesWhatTheLibraryJobGives(@TempDir Path dir) throws IOException {
         // Invented peaks: four Balmer multiplets of the engine moved by 25 km/s, in air, and a stray peak.
-        HydrogenLikeModel hydrogen = HydrogenLikeModel.of(NuclearData.builtIn().nucleus(Species.parse("H I")),
-                Tier.QED);
-        LineCatalog rest = Candidates.inWindow(400e-9, 700e-9).hydrogenLike(Species.parse("H I"), hydrogen, 6, false)
-                .build().catalog();
+        HydrogenLikeModel hydrogen = hydrogen();
+        LineCatalog rest = balmerMultiplets(hydrogen);
         StringBuilder rows = new StringBuilder("position,uncertainty\n");
         for (int j = 0; j < rest.size(); j++) {
             double air = Medium.air().fromVacuum(rest.wavelength(j) * (1 + 25e3 / 299_792_458.0)) * 1e9;
