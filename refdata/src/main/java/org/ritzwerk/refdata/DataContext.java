@@ -393,7 +393,7 @@ public final class DataContext {
      * @param species a neutral alkali isotope
      * @param state   a level, e.g. 5p 2P3/2 or 60s 2S1/2
      * @return the hyperfine constants that apply to it: the measured ones where
-     *         {@link #alkaliHyperfine()} has them (ground and first p levels), else the n*^-3-scaled
+     *         {@link #alkaliHyperfine()} has them (ground and first p levels, Cs-133 7p), else the n*^-3-scaled
      *         ones of {@link #rydbergHyperfine()}; empty when neither has the level
      */
     public Optional<HyperfineConstants> hyperfineConstants(Species species, State state) {
