@@ -35,12 +35,7 @@ final class RydbergHyperfineLevels {
      * @throws OptionException when the level cannot be read, does not exist, or has no constants
      */
     static void print(DataContext context, List<AlkaliAtom> atoms, String text, PrintWriter out, Table.Format format) {
-        State state;
-        try {
-            state = State.parse(text);
-        } catch (org.ritzwerk.atom.StateParseException e) {
-            throw new OptionException(STATE_OPTION + ": " + e.getMessage());
-        }
+        State state = AlkaliTables.parseState(STATE_OPTION, text);
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("label", "level"),

@@ -150,9 +150,14 @@ class RydbergHyperfineLevelsTest {
             {"--species", "Rb-87 I", "--hyperfine", "--state", "60x1/2"},
             {"--species", "Rb-87 I", "--hyperfine", "--state", "3s1/2"},
             {"--species", "H", "--hyperfine", "--state", "2s1/2"},
+            {"--species", "Rb-87 I", "--hyperfine", "--state", "2001s1/2"},
+            {"--species", "Rb-87 I", "--hyperfine", "--state", "0s1/2"},
+            {"--species", "Rb-87 I", "--hyperfine", "--n-max", "2001"},
         };
         String[] expected = {"--state: no hyperfine constants for 60f7/2 of Rb-87 I", "--state has no effect",
-            "--state: cannot read state", "--state: ", "has no effect"};
+            "--state: cannot read state", "--state: ", "has no effect",
+            "--state: 2001s 2S1/2 has n = 2001; states are computed for n up to 2000", "--state: cannot read state",
+            "--n-max must be 1 to 2000"};
         for (int i = 0; i < cases.length; i++) {
             String[] args = new String[cases[i].length + 1];
             args[0] = "levels";
