@@ -323,6 +323,10 @@ final class LinesCommand implements Callable<Integer> {
                 AlkaliTables.transition(atom, pair[0], pair[1], temperature, spec.commandLine().getOut(),
                         spec.commandLine().getErr(), format, running);
             }
+            for (State state : pair) {
+                data.context().lifetimeChecks().miss(atom, atom.species(), state).ifPresent(miss -> spec.commandLine()
+                        .getErr().println(AlkaliTables.lifetimeMissNote(atom.species(), miss)));
+            }
         } else {
             State[] states = AlkaliTables.ladder(ladder);
             AlkaliTables.checkRange("--ladder", atom, states);

@@ -381,6 +381,15 @@ public final class DataContext {
     }
 
     /**
+     * @return the built-in measured lifetimes of alkali levels whose computed lifetimes rest on computed
+     *         dipole elements, with the comparison that names a miss beyond the stated uncertainty (built-in
+     *         only, like {@link #alkaliDipoles()})
+     */
+    public LifetimeChecks lifetimeChecks() {
+        return LifetimeChecks.builtIn();
+    }
+
+    /**
      * @return the built-in hyperfine constants of alkali Rydberg series, scaled as n*^-3 from
      *         published measurements (built-in only, like {@link #alkaliHyperfine()}); their F
      *         levels take this context for nuclear spins and the atoms' levels
