@@ -162,6 +162,20 @@ final class HyperfineTables {
      * {@code AlkaliHyperfine.diamagneticLineShiftHertz} on each D line, each level's from the model's
      * {@code <r^2>}.
      */
+    /** Reads {@code --field-tesla}: a plain number of tesla; a value with a unit gets a message saying so. */
+    static final class Tesla implements picocli.CommandLine.ITypeConverter<Double> {
+        @Override
+        public Double convert(String value) {
+            try {
+                return Double.valueOf(value.strip());
+            } catch (NumberFormatException e) {
+                throw new picocli.CommandLine.TypeConversionException("'" + value + "' is not a number: "
+                        + FIELD_OPTION + " takes the field in tesla as a plain number, without a unit (e.g. 1e-4 for "
+                        + "1 G, 0.001 for 1 mT)");
+            }
+        }
+    }
+
     static String diamagneticNote(AlkaliAtom atom, double fieldTesla) {
         State ground = atom.groundState();
         double d1 = AlkaliHyperfine.diamagneticLineShiftHertz(atom, ground, new State(ground.n(), 1, 1), fieldTesla);

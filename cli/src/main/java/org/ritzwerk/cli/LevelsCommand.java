@@ -302,7 +302,7 @@ final class LevelsCommand implements Callable<Integer> {
         unsplit.forEach((species, labels) -> spec.commandLine().getErr().println("note: " + species.notation()
                 + ": no hyperfine constants for " + labels.size() + " level(s), listed unsplit (F -): "
                 + String.join(", ", labels.subList(0, Math.min(8, labels.size()))) + (labels.size() > 8 ? ", ..." : "")
-                + "; README, Data provenance, names the levels that have them"));
+                + "; README, Built-in reference data, names the levels that have them"));
         return 0;
     }
 

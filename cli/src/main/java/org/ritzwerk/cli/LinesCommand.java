@@ -95,9 +95,9 @@ final class LinesCommand implements Callable<Integer> {
                     + "centroids); with --ladder, the ladder's F-resolved paths.")
     boolean hyperfine;
 
-    @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA",
-            description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla (0 to "
-                    + "1000; the ground level and the whole first p term diagonalised, so p1/2 and p3/2 mix as the "
+    @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA", converter = HyperfineTables.Tesla.class,
+            description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla as a "
+                    + "plain number (1e-4 for 1 G; 0 to 1000; the ground level and the whole first p term diagonalised, so p1/2 and p3/2 mix as the "
                     + "field grows, up to the Paschen-Back regime).")
     Double fieldTesla;
 
@@ -297,7 +297,7 @@ final class LinesCommand implements Callable<Integer> {
         AlkaliTables.edgeNote(atom, spec.commandLine().getErr(), states);
         AlkaliTables.sourcesNote(atom, spec.commandLine().getErr(), states);
         spec.commandLine().getErr().println(HyperfineTables.sourcesNote(data.context(), atom) + "; a Rydberg "
-                + "level's A and B are scaled with n* (README, Hyperfine)");
+                + "level's A and B are scaled with n* (README, Hyperfine and Zeeman structure)");
         spec.commandLine().getErr().flush();
         return 0;
     }

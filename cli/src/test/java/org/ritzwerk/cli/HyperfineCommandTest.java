@@ -177,5 +177,29 @@ class HyperfineCommandTest {
         CliTest.Run window = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--from", "1 GHz");
         assertEquals(2, window.code());
         assertTrue(window.err().contains("--from has no effect with --hyperfine"), window.err());
+        // a field with a unit: the option takes tesla as a plain number, and the message says how to write 1 G
+        CliTest.Run gauss = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1 G");
+        assertEquals(2, gauss.code(), gauss.err());
+        assertTrue(gauss.err().contains("--field-tesla takes the field in tesla as a plain number, without a unit "
+                + "(e.g. 1e-4 for 1 G"), gauss.err());
+        // an isotope without level data (Rb-86: radioactive, no quantum defects or levels built in) is named as such
+        CliTest.Run rb86 = CliTest.run("lines", "--species", "Rb-86 I", "--hyperfine");
+        assertEquals(2, rb86.code(), rb86.err());
+        assertTrue(rb86.err().contains("no alkali level data (quantum defects and levels, hence no lines, lifetimes or "
+                + "hyperfine structure) for Rb-86 I; isotopes with level data: Li-6 I"), rb86.err());
+        // the note on levels listed unsplit points to a README section that exists
+        CliTest.Run unsplit = CliTest.run("levels", "--species", "Rb-87 I", "--hyperfine", "--n-max", "6");
+        assertEquals(0, unsplit.code(), unsplit.err());
+        assertTrue(unsplit.err().contains("README, Built-in reference data, names the levels that have them"),
+                unsplit.err());
+        assertTrue(readme().contains("### Built-in reference data"));
+    }
+
+    private static String readme() {
+        try {
+            return java.nio.file.Files.readString(java.nio.file.Path.of("..", "README.md"));
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException(e);
+        }
     }
 }

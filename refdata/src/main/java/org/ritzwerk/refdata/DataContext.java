@@ -276,8 +276,9 @@ public final class DataContext {
                 .filter(l -> l.info().kind() == DataKind.QUANTUM_DEFECTS && l.info().species().contains(species))
                 .findFirst().orElse(null);
         if (listing == null) {
-            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no Rydberg data for "
-                    + species.notation() + "; available: " + alkaliSpecies().stream().map(Species::notation)
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no alkali level data "
+                    + "(quantum defects and levels, hence no lines, lifetimes or hyperfine structure) for "
+                    + species.notation() + "; isotopes with level data: " + alkaliSpecies().stream().map(Species::notation)
                             .collect(Collectors.joining(", ")));
         }
         String id = listing.info().id();
