@@ -293,7 +293,8 @@ final class AlkaliTables {
                 miss.state().label(), miss.computedSeconds() * 1e9, miss.uncertaintySeconds() * 1e9,
                 Math.abs(100 * miss.relative()), miss.relative() < 0 ? "short of" : "above", m.valueText(),
                 m.uncertainty().isPresent()
-                        ? String.format(Locale.ROOT, " +- %.2g", m.uncertainty().getAsDouble() * 1e9) : "", m.source(), m.provenance().id(), LifetimeChecks.COVERAGE);
+                        ? String.format(Locale.ROOT, " +- %.2g", m.uncertainty().getAsDouble() * 1e9) : "",
+                m.source(), m.provenance().id(), LifetimeChecks.COVERAGE);
     }
 
     static double air(double vacuumMetres) {

@@ -278,8 +278,8 @@ public final class DataContext {
         if (listing == null) {
             throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no alkali level data "
                     + "(quantum defects and levels, hence no lines, lifetimes or hyperfine structure) for "
-                    + species.notation() + "; isotopes with level data: " + alkaliSpecies().stream().map(Species::notation)
-                            .collect(Collectors.joining(", ")));
+                    + species.notation() + "; isotopes with level data: "
+                    + alkaliSpecies().stream().map(Species::notation).collect(Collectors.joining(", ")));
         }
         String id = listing.info().id();
         DataSet set = registry.load(id);
