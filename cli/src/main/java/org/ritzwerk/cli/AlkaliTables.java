@@ -3,7 +3,9 @@ package org.ritzwerk.cli;
 import java.io.PrintWriter;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.OptionalInt;
+import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeLines;
 import org.ritzwerk.engine.lines.LineQuery;
@@ -14,6 +16,7 @@ import org.ritzwerk.engine.rydberg.AlkaliLines;
 import org.ritzwerk.engine.rydberg.LadderExcitation;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.medium.MediumException;
+import org.ritzwerk.refdata.LifetimeChecks;
 
 /**
  * The alkali parts of {@code ritzwerk lines}: reading {@code --transition} and {@code --ladder}
@@ -277,6 +280,23 @@ final class AlkaliTables {
     }
 
     /** Standard-air wavelength in metres, NaN (null in output) outside the air model. */
+    /**
+     * The note for a level whose computed lifetime misses its measurement beyond its stated uncertainty
+     * ({@code LifetimeChecks.miss}).
+     */
+    static String lifetimeMissNote(Species species, LifetimeChecks.Miss miss) {
+        LifetimeChecks.Measured m = miss.measured();
+        return String.format(Locale.ROOT, "note: %s %s: the computed lifetime %.4g +- %.2g ns (0 K) is %.0f %% %s the "
+                + "measured %s%s ns (%s; %s): more than %.0f times the combined uncertainty, which the stated u does "
+                + "not cover (rydberg/lifetime-checks.csv; README, Rydberg states of alkali atoms)",
+                species.notation(),
+                miss.state().label(), miss.computedSeconds() * 1e9, miss.uncertaintySeconds() * 1e9,
+                Math.abs(100 * miss.relative()), miss.relative() < 0 ? "short of" : "above", m.valueText(),
+                m.uncertainty().isPresent()
+                        ? String.format(Locale.ROOT, " +- %.2g", m.uncertainty().getAsDouble() * 1e9) : "",
+                m.source(), m.provenance().id(), LifetimeChecks.COVERAGE);
+    }
+
     static double air(double vacuumMetres) {
         try {
             return Medium.air().fromVacuum(vacuumMetres);

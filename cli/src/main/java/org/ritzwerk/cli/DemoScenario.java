@@ -38,6 +38,7 @@ import org.ritzwerk.engine.synth.PixelGrid;
 import org.ritzwerk.engine.synth.Scene;
 import org.ritzwerk.medium.Medium;
 import org.ritzwerk.quantity.Unit;
+import org.ritzwerk.refdata.AlkaliHyperfine;
 import org.ritzwerk.refdata.CalibrationFiles;
 import org.ritzwerk.refdata.DataContext;
 import org.ritzwerk.refdata.OutputFiles;
@@ -85,6 +86,7 @@ final class DemoScenario {
         double deuteriumRatio = Double.NaN;
         final List<Double> rydbergMicrowaveGhz = new ArrayList<>();
         final List<Double> rydbergSecondLaserNm = new ArrayList<>();
+        final List<Double> rydbergSecondLaserLockNm = new ArrayList<>();
         double rydbergLockTerahertz = Double.NaN;
         final List<Path> files = new ArrayList<>();
     }
@@ -381,16 +383,42 @@ final class DemoScenario {
         out.println("   states by two lasers (5s1/2 -> 5p3/2 -> nd5/2). For three candidate states, Ritzwerk gives");
         out.println("   the laser wavelengths, the microwave line to the nearest p state, its dipole matrix element");
         out.println("   and the lifetimes at 0 K and in a 300 K enclosure.");
-        AlkaliAtom rb = data.alkaliAtom(Species.parse("Rb-87 I"));
+        Species species = Species.parse("Rb-87 I");
+        AlkaliAtom rb = data.alkaliAtom(species);
         State ground = State.parse("5s1/2");
         State intermediate = State.parse("5p3/2");
-        out.printf(Locale.ROOT, "   %-8s %12s %12s %10s %14s %12s %10s %10s%n", "state", "laser 1 nm", "laser 2 nm",
-                "to", "microwave GHz", "<d> e a0", "tau0 us", "tau300 us");
-        double spread0 = 0;
-        double spread300 = 0;
-        for (int n : new int[] {40, 50, 60}) {
+        int[] ns = {40, 50, 60};
+        out.println("   Laser wavelengths, nm in standard air. 'centroid' joins the levels' hyperfine-free centroids");
+        out.println("   (fine structure only); 'lock' is the hyperfine component a locked laser sits on: laser 1 on");
+        out.println("   D2 5s1/2 F=2 -> 5p3/2 F'=3, laser 2 from 5p3/2 F'=3 to the Rydberg level's F''=4. Tune to "
+                + "'lock'.");
+        out.printf(Locale.ROOT, "   %-8s %17s %14s %17s %14s%n", "state", "laser 1 centroid", "laser 1 lock",
+                "laser 2 centroid", "laser 2 lock");
+        double secondLockOffsetMhz = Double.NaN;
+        for (int n : ns) {
             State rydberg = State.of(n, 2, 5);
             LadderExcitation ladder = rb.ladder(ground, intermediate, rydberg);
+            // The lock path F = 2 -> F' = 3 -> F'' = 4 (2F = 4, 6, 8), with the levels' A and B constants.
+            AlkaliHyperfine.LadderComponent lock = AlkaliHyperfine.ladderComponents(data, species, ground,
+                    intermediate, rydberg).stream().filter(p -> p.twoFLower() == 4 && p.twoFIntermediate() == 6
+                            && p.twoFUpper() == 8).findFirst().orElseThrow();
+            double secondLockNm = Medium.air().fromVacuum(PhysicalConstants.C / lock.secondHertz()) * 1e9;
+            out.printf(Locale.ROOT, "   %-8s %17.6f %14.6f %17.6f %14.6f%n", rydberg.label(),
+                    ladder.firstMetres(Medium.air()) * 1e9,
+                    Medium.air().fromVacuum(PhysicalConstants.C / lock.firstHertz()) * 1e9,
+                    ladder.secondMetres(Medium.air()) * 1e9, secondLockNm);
+            results.rydbergSecondLaserNm.add(ladder.secondMetres(Medium.air()) * 1e9);
+            results.rydbergSecondLaserLockNm.add(secondLockNm);
+            if (n == 50) {
+                secondLockOffsetMhz = (lock.secondHertz() - rb.frequencyHz(intermediate, rydberg)) / 1e6;
+            }
+        }
+        out.printf(Locale.ROOT, "   %-8s %10s %14s %12s %10s %10s%n", "state", "to", "microwave GHz", "<d> e a0",
+                "tau0 us", "tau300 us");
+        double spread0 = 0;
+        double spread300 = 0;
+        for (int n : ns) {
+            State rydberg = State.of(n, 2, 5);
             // The dipole-allowed p3/2 neighbour just below: (n+1)p3/2 lies under nd for rubidium.
             State partner = State.of(n + 1, 1, 3);
             double ghz = rb.frequencyHz(partner, rydberg) / 1e9;
@@ -399,25 +427,25 @@ final class DemoScenario {
             double tau300 = rb.effectiveLifetime(rydberg, 300) * 1e6;
             spread0 = Math.max(spread0, rb.radiativeLifetimeUncertainty(rydberg).orElseThrow() * 1e6 / tau0);
             spread300 = Math.max(spread300, rb.effectiveLifetimeUncertainty(rydberg, 300).orElseThrow() * 1e6 / tau300);
-            out.printf(Locale.ROOT, "   %-8s %12.4f %12.4f %10s %14.4f %12.1f %10.1f %10.1f%n", rydberg.label(),
-                    ladder.firstMetres(Medium.air()) * 1e9, ladder.secondMetres(Medium.air()) * 1e9, partner.label(),
+            out.printf(Locale.ROOT, "   %-8s %10s %14.4f %12.1f %10.1f %10.1f%n", rydberg.label(), partner.label(),
                     Math.abs(ghz), Math.abs(dipole), tau0, tau300);
             results.rydbergMicrowaveGhz.add(Math.abs(ghz));
-            results.rydbergSecondLaserNm.add(ladder.secondMetres(Medium.air()) * 1e9);
         }
         // The first laser is locked to the strongest hyperfine component of D2.
-        HyperfineComponent lock = data.alkaliHyperfine().components(data, Species.parse("Rb-87 I"), ground,
-                intermediate).stream().filter(c -> c.twoFLower() == 4 && c.twoFUpper() == 6).findFirst().orElseThrow();
+        HyperfineComponent lock = data.alkaliHyperfine().components(data, species, ground, intermediate).stream()
+                .filter(c -> c.twoFLower() == 4 && c.twoFUpper() == 6).findFirst().orElseThrow();
         double centroid = rb.frequencyHz(ground, intermediate);
-        out.printf(Locale.ROOT, "   Laser 1 locks to D2 5s1/2 F=2 -> 5p3/2 F'=3: %.6f THz (%.5f nm vacuum), %.1f MHz from%n",
-                lock.frequencyHertz() / 1e12, PhysicalConstants.C / lock.frequencyHertz() * 1e9,
-                (lock.frequencyHertz() - centroid) / 1e6);
-        out.println("   the line's hyperfine-free centroid (Rb-87's own D2 measurement and A, B constants).");
+        double lockVacuum = PhysicalConstants.C / lock.frequencyHertz();
+        out.printf(Locale.ROOT, "   Laser 1 locks to D2 5s1/2 F=2 -> 5p3/2 F'=3: %.6f THz (%.5f nm vacuum, %.5f nm "
+                + "air),%n   %.1f MHz from the line's hyperfine-free centroid (Rb-87's own D2 measurement and A, B%n"
+                + "   constants); laser 2 from F'=3 to 50d5/2 F''=4 is %.1f MHz from its centroid.%n",
+                lock.frequencyHertz() / 1e12, lockVacuum * 1e9, Medium.air().fromVacuum(lockVacuum) * 1e9,
+                (lock.frequencyHertz() - centroid) / 1e6, secondLockOffsetMhz);
         results.rydbergLockTerahertz = lock.frequencyHertz() / 1e12;
-        out.println("   Laser wavelengths in standard air; the dipole is the reduced matrix element (Edmonds'");
-        out.println("   convention); lifetimes from the Coulomb-approximation wavefunctions, uncertain by up to");
-        out.printf(Locale.ROOT, "   %.0f %% at 0 K and %.0f %% at 300 K (the spread of two published methods of "
-                + "computing them).%n", 100 * spread0, 100 * spread300);
+        out.println("   The dipole is the reduced matrix element (Edmonds' convention); lifetimes from the");
+        out.printf(Locale.ROOT, "   Coulomb-approximation wavefunctions, uncertain by up to %.1f %% at 0 K and "
+                + "%.1f %% at 300 K%n   (the spread of two published methods of computing them).%n", 100 * spread0,
+                100 * spread300);
         out.println("   Laser light and the lamps above need the usual protection: see the README's safety section.");
         out.println();
     }

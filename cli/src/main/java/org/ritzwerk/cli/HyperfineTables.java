@@ -99,10 +99,10 @@ final class HyperfineTables {
         table.finish();
     }
 
-    /** Adds frequency, offset from the centroid, vacuum wavelength and (for air) the air wavelength. */
     /**
-     * Prints a ladder's F-resolved paths ({@code AlkaliHyperfine.ladderComponents}): each step's frequency, its
-     * offset from the step's fine-structure centroid and its vacuum wavelength.
+     * Prints a ladder's F-resolved paths ({@code AlkaliHyperfine.ladderComponents}): the three levels, each
+     * step's frequency, its offset from the step's fine-structure centroid, and its wavelength in vacuum and in
+     * standard air (the air model of the plain {@code --ladder}; null outside it).
      */
     static void ladder(DataContext context, AlkaliAtom atom, State[] states, PrintWriter out, Table.Format format) {
         List<AlkaliHyperfine.LadderComponent> paths;
@@ -115,19 +115,28 @@ final class HyperfineTables {
         double second = atom.frequencyHz(states[1], states[2]);
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
+                Table.Column.text("lower", "lower"),
+                Table.Column.text("intermediate", "intermediate"),
+                Table.Column.text("upper", "upper"),
                 Table.Column.text("lower_f", "F"),
                 Table.Column.text("intermediate_f", "F'"),
                 Table.Column.text("upper_f", "F''"),
                 Table.Column.number("first_frequency_hz", "step 1 Hz", "%.12e"),
                 Table.Column.number("first_offset_mhz", "MHz from centroid", "%.4f"),
                 Table.Column.number("first_vacuum_wavelength_nm", "vacuum nm", "%.7f"),
+                Table.Column.number("first_air_wavelength_nm", "air nm", "%.7f"),
                 Table.Column.number("second_frequency_hz", "step 2 Hz", "%.12e"),
                 Table.Column.number("second_offset_mhz", "MHz from centroid", "%.4f"),
-                Table.Column.number("second_vacuum_wavelength_nm", "vacuum nm", "%.7f")), out, format);
+                Table.Column.number("second_vacuum_wavelength_nm", "vacuum nm", "%.7f"),
+                Table.Column.number("second_air_wavelength_nm", "air nm", "%.7f")), out, format);
         for (AlkaliHyperfine.LadderComponent p : paths) {
-            table.add(atom.species().notation(), half(p.twoFLower()), half(p.twoFIntermediate()), half(p.twoFUpper()),
-                    p.firstHertz(), (p.firstHertz() - first) / 1e6, PhysicalConstants.C / p.firstHertz() * 1e9,
-                    p.secondHertz(), (p.secondHertz() - second) / 1e6, PhysicalConstants.C / p.secondHertz() * 1e9);
+            double firstVacuum = PhysicalConstants.C / p.firstHertz();
+            double secondVacuum = PhysicalConstants.C / p.secondHertz();
+            table.add(atom.species().notation(), states[0].notation(), states[1].notation(), states[2].notation(),
+                    half(p.twoFLower()), half(p.twoFIntermediate()), half(p.twoFUpper()),
+                    p.firstHertz(), (p.firstHertz() - first) / 1e6, firstVacuum * 1e9,
+                    AlkaliTables.air(firstVacuum) * 1e9, p.secondHertz(), (p.secondHertz() - second) / 1e6,
+                    secondVacuum * 1e9, AlkaliTables.air(secondVacuum) * 1e9);
         }
         table.finish();
     }
@@ -153,6 +162,20 @@ final class HyperfineTables {
      * {@code AlkaliHyperfine.diamagneticLineShiftHertz} on each D line, each level's from the model's
      * {@code <r^2>}.
      */
+    /** Reads {@code --field-tesla}: a plain number of tesla; a value with a unit gets a message saying so. */
+    static final class Tesla implements picocli.CommandLine.ITypeConverter<Double> {
+        @Override
+        public Double convert(String value) {
+            try {
+                return Double.valueOf(value.strip());
+            } catch (NumberFormatException e) {
+                throw new picocli.CommandLine.TypeConversionException("'" + value + "' is not a number: "
+                        + FIELD_OPTION + " takes the field in tesla as a plain number, without a unit (e.g. 1e-4 for "
+                        + "1 G, 0.001 for 1 mT)");
+            }
+        }
+    }
+
     static String diamagneticNote(AlkaliAtom atom, double fieldTesla) {
         State ground = atom.groundState();
         double d1 = AlkaliHyperfine.diamagneticLineShiftHertz(atom, ground, new State(ground.n(), 1, 1), fieldTesla);

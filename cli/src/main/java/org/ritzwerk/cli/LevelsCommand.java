@@ -18,6 +18,7 @@ import org.ritzwerk.engine.levels.LevelSources;
 import org.ritzwerk.engine.ritz.RitzLevels;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.refdata.DataLevels;
+import org.ritzwerk.refdata.LifetimeChecks;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -80,14 +81,14 @@ final class LevelsCommand implements Callable<Integer> {
 
     @Option(names = "--hyperfine",
             description = "Alkali isotopes: split the levels with published hyperfine constants (the ground and "
-                    + "first p levels, and Rydberg series with n*^-3-scaled constants) into their F levels, each "
-                    + "with its energy (Casimir formula with A and B) and g = 2F + 1.")
+                    + "first p levels, Cs 7p, and Rydberg series with n*^-3-scaled constants) into their F levels, "
+                    + "each with its energy (Casimir formula with A and B) and g = 2F + 1.")
     boolean hyperfine;
 
     @Option(names = RydbergHyperfineLevels.STATE_OPTION, paramLabel = "STATE",
             description = "With --hyperfine: only this alkali level (e.g. 60s1/2, 7s1/2, 5p3/2), split into its F "
                     + "levels with their shift from the hyperfine-free level in MHz and the A and B used (measured "
-                    + "for the ground and first p levels, scaled as n*^-3 for Rydberg series).")
+                    + "for the ground and first p levels and Cs 7p, scaled as n*^-3 for Rydberg series).")
     String state;
 
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
@@ -215,6 +216,7 @@ final class LevelsCommand implements Callable<Integer> {
         Map<Species, List<String>> nearEdge = new java.util.LinkedHashMap<>();
         Map<Species, List<String>> notEstimated = new java.util.LinkedHashMap<>();
         Map<Species, Integer> lifetimeNotEstimated = new java.util.LinkedHashMap<>();
+        Map<Species, java.util.Set<State>> listedStates = new HashMap<>();
         Map<Species, DoubleConsumer> progress = new HashMap<>();
         query.run(sources, (species, fraction) -> progress.computeIfAbsent(species, s -> Progress.on(
                 spec.commandLine().getErr(), "levels: " + s.notation() + (lifetimes ? " lifetimes" : "")))
@@ -251,6 +253,7 @@ final class LevelsCommand implements Callable<Integer> {
                                 && part.twoJ(i).isPresent()) {
                             State state = new State(part.n(i).getAsInt(), part.l(i).getAsInt(),
                                     part.twoJ(i).getAsInt());
+                            listedStates.computeIfAbsent(part.species(i), k -> new java.util.HashSet<>()).add(state);
                             List<String> near = nearEdge.computeIfAbsent(part.species(i), k -> new ArrayList<>());
                             if (atom.seriesEdge(state).isPresent() && !near.contains(state.notation())) {
                                 near.add(state.notation());
@@ -285,10 +288,21 @@ final class LevelsCommand implements Callable<Integer> {
                 + " a lifetime carries one where published dipole elements decide its decay channels, and where"
                 + " computed elements do only with a second model to compare (the model potential of Li, Na, K, Rb"
                 + " and Cs); README, Accuracy, says how it is made"));
+        if (lifetimes) {
+            // computed lifetimes known to miss their measurement beyond the stated u (rydberg/lifetime-checks.csv)
+            for (AlkaliAtom atom : atoms.alkalis()) {
+                java.util.Set<State> shown = listedStates.getOrDefault(atom.species(), java.util.Set.of());
+                for (LifetimeChecks.Miss miss : data.context().lifetimeChecks().misses(atom, atom.species())) {
+                    if (shown.contains(miss.state())) {
+                        spec.commandLine().getErr().println(AlkaliTables.lifetimeMissNote(atom.species(), miss));
+                    }
+                }
+            }
+        }
         unsplit.forEach((species, labels) -> spec.commandLine().getErr().println("note: " + species.notation()
                 + ": no hyperfine constants for " + labels.size() + " level(s), listed unsplit (F -): "
                 + String.join(", ", labels.subList(0, Math.min(8, labels.size()))) + (labels.size() > 8 ? ", ..." : "")
-                + "; README, Data provenance, names the levels that have them"));
+                + "; README, Built-in reference data, names the levels that have them"));
         return 0;
     }
 

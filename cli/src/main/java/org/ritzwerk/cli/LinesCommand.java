@@ -95,10 +95,10 @@ final class LinesCommand implements Callable<Integer> {
                     + "centroids); with --ladder, the ladder's F-resolved paths.")
     boolean hyperfine;
 
-    @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA",
-            description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla (0 to "
-                    + "1000; the ground level and the whole first p term diagonalised, so p1/2 and p3/2 mix as the "
-                    + "field grows, up to the Paschen-Back regime).")
+    @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA", converter = HyperfineTables.Tesla.class,
+            description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla as a "
+                    + "plain number (1e-4 for 1 G; 0 to 1000; the ground level and the whole first p term "
+                    + "diagonalised, so p1/2 and p3/2 mix as the field grows, up to the Paschen-Back regime).")
     Double fieldTesla;
 
     @Option(names = "--intercombination",
@@ -297,7 +297,7 @@ final class LinesCommand implements Callable<Integer> {
         AlkaliTables.edgeNote(atom, spec.commandLine().getErr(), states);
         AlkaliTables.sourcesNote(atom, spec.commandLine().getErr(), states);
         spec.commandLine().getErr().println(HyperfineTables.sourcesNote(data.context(), atom) + "; a Rydberg "
-                + "level's A and B are scaled with n* (README, Hyperfine)");
+                + "level's A and B are scaled with n* (README, Hyperfine and Zeeman structure)");
         spec.commandLine().getErr().flush();
         return 0;
     }
@@ -322,6 +322,10 @@ final class LinesCommand implements Callable<Integer> {
                     + atom.species().notation() + " " + transition + ": rates and lifetimes")) {
                 AlkaliTables.transition(atom, pair[0], pair[1], temperature, spec.commandLine().getOut(),
                         spec.commandLine().getErr(), format, running);
+            }
+            for (State state : pair) {
+                data.context().lifetimeChecks().miss(atom, atom.species(), state).ifPresent(miss -> spec.commandLine()
+                        .getErr().println(AlkaliTables.lifetimeMissNote(atom.species(), miss)));
             }
         } else {
             State[] states = AlkaliTables.ladder(ladder);

@@ -14,7 +14,7 @@ import org.ritzwerk.refdata.DataContext;
 
 /**
  * {@code levels --hyperfine --state STATE}: the F levels of one alkali level (a Rydberg level with
- * n*^-3-scaled constants, or a ground or first p level with measured ones), each with its energy and
+ * n*^-3-scaled constants, or a ground, first p or Cs 7p level with measured ones), each with its energy and
  * its shift from the hyperfine-free level. Formatting only: the constants and F levels come from
  * {@link DataContext#hyperfineConstants} and {@link DataContext#hyperfineLevels}.
  */
@@ -35,12 +35,7 @@ final class RydbergHyperfineLevels {
      * @throws OptionException when the level cannot be read, does not exist, or has no constants
      */
     static void print(DataContext context, List<AlkaliAtom> atoms, String text, PrintWriter out, Table.Format format) {
-        State state;
-        try {
-            state = State.parse(text);
-        } catch (org.ritzwerk.atom.StateParseException e) {
-            throw new OptionException(STATE_OPTION + ": " + e.getMessage());
-        }
+        State state = AlkaliTables.parseState(STATE_OPTION, text);
         Table table = new Table(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("label", "level"),
@@ -60,8 +55,8 @@ final class RydbergHyperfineLevels {
             }
             HyperfineConstants constants = context.hyperfineConstants(atom.species(), state).orElseThrow(
                     () -> new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
-                            + atom.species().notation() + " (constants are built in for the ground and first p levels "
-                            + "and, scaled as n*^-3, for the Rydberg series of rydberg-hyperfine.csv)"));
+                            + atom.species().notation() + " (constants are built in for the ground and first p "
+                            + "levels, Cs 7p and, scaled as n*^-3, for the Rydberg series of rydberg-hyperfine.csv)"));
             List<AlkaliHyperfine.FLevel> levels = context.hyperfineLevels(atom.species(), state);
             for (AlkaliHyperfine.FLevel f : levels) {
                 table.add(atom.species().notation(), state.notation(), half(f.twoF()), f.twoF() + 1, f.energyPerCm(),

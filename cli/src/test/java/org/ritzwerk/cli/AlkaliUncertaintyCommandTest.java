@@ -121,4 +121,30 @@ class AlkaliUncertaintyCommandTest {
         assertTrue(lines.err().contains("u nm is not estimated"), lines.err());
         assertTrue(!lines.out().contains("NaN"), lines.out());
     }
+
+    /**
+     * Cs 7p lifetimes come out 12 and 15 % short of measurement (about 133 and 155 ns, as recalled in the review
+     * of issue 17, from memory; rydberg/lifetime-checks.csv) while their stated u is 3-4 %: levels --lifetimes
+     * and lines --transition say so on standard error; Rb, whose listed lifetimes are met, gets no such note.
+     */
+    @Test
+    void aLifetimeKnownToMissItsMeasurementIsNoted() {
+        CliTest.Run cs = CliTest.run("levels", "--species", "Cs I", "--n-max", "8", "--l-max", "1", "--lifetimes",
+                "--temperature", "300");
+        assertEquals(0, cs.code(), cs.err());
+        assertTrue(cs.err().contains("note: Cs-133 I 7p3/2: the computed lifetime 116.9 +- 3.9 ns (0 K) is 12 % short "
+                + "of the measured 133 ns"), cs.err());
+        assertTrue(cs.err().contains("note: Cs-133 I 7p1/2: the computed lifetime 131.4 +- 5.1 ns (0 K) is 15 % short "
+                + "of the measured 155 ns"), cs.err());
+        assertFalse(cs.out().contains("note"), cs.out());
+        // a list without 7p (l = 0 only) has no such note
+        CliTest.Run s = CliTest.run("levels", "--species", "Cs I", "--n-max", "8", "--l-max", "0", "--lifetimes");
+        assertFalse(s.err().contains("lifetime-checks"), s.err());
+        CliTest.Run rb = CliTest.run("levels", "--species", "Rb-87 I", "--n-max", "8", "--lifetimes");
+        assertEquals(0, rb.code(), rb.err());
+        assertFalse(rb.err().contains("lifetime-checks"), rb.err());
+        CliTest.Run line = CliTest.run("lines", "--species", "Cs-133 I", "--transition", "6s1/2 -> 7p3/2");
+        assertEquals(0, line.code(), line.err());
+        assertTrue(line.err().contains("note: Cs-133 I 7p3/2: the computed lifetime"), line.err());
+    }
 }

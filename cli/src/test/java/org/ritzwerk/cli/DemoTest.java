@@ -12,7 +12,9 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.medium.Medium;
 import org.ritzwerk.refdata.DataContext;
 
 /**
@@ -69,8 +71,32 @@ class DemoTest {
         assertEquals(384.2304844685 - 2563.006e-6 + (2.25 * 84.7185 + 12.4965 / 4) * 1e-6, r.rydbergLockTerahertz,
                 1e-6, report);
         assertTrue(report.contains("Laser 1 locks to D2 5s1/2 F=2 -> 5p3/2 F'=3"), report);
-        // the lifetimes' stated uncertainty (the model spread, LifetimeModelSpreadTest) is said beside them
-        assertTrue(report.replaceAll("\\s+", " ").contains("uncertain by up to 8 % at 0 K and 5 % at 300 K"), report);
+        // The table says which wavelengths are centroids and which the lock components; laser 2's lock from
+        // 5p3/2 F'=3 lies 9/4 A + B/4 = 193.74 MHz below its centroid (F'=3 sits that far above the 5p3/2
+        // centroid; A = 84.7185, B = 12.4965 MHz, Arimondo et al. 1977, from memory), less the kHz-sized
+        // shift of the Rydberg level's F''=4: 0.15 pm longer at 480 nm.
+        String flat = report.replaceAll("\\s+", " ");
+        assertTrue(flat.contains("'centroid' joins the levels' hyperfine-free centroids (fine structure only); 'lock' "
+                + "is the hyperfine component a locked laser sits on"), report);
+        for (int i = 0; i < 3; i++) {
+            double centroidHz = PhysicalConstants.C / Medium.air().toVacuum(r.rydbergSecondLaserNm.get(i) * 1e-9);
+            double lockHz = PhysicalConstants.C / Medium.air().toVacuum(r.rydbergSecondLaserLockNm.get(i) * 1e-9);
+            assertEquals(-(2.25 * 84.7185 + 12.4965 / 4), (lockHz - centroidHz) / 1e6, 0.05, report);
+        }
+        assertTrue(flat.contains("laser 2 from F'=3 to 50d5/2 F''=4 is -193."), report);
+        // the lifetimes' stated uncertainty (the model spread, LifetimeModelSpreadTest) is said beside them, to
+        // the digit lines --transition prints (the largest of the three states at each temperature)
+        double spread0 = 0;
+        double spread300 = 0;
+        for (int n : new int[] {40, 50, 60}) {
+            State s = State.of(n, 2, 5);
+            spread0 = Math.max(spread0, rb.radiativeLifetimeUncertainty(s).orElseThrow() / rb.radiativeLifetime(s));
+            spread300 = Math.max(spread300, rb.effectiveLifetimeUncertainty(s, 300).orElseThrow()
+                    / rb.effectiveLifetime(s, 300));
+        }
+        assertTrue(flat.contains(String.format(java.util.Locale.ROOT, "uncertain by up to %.1f %% at 0 K and %.1f %% "
+                + "at 300 K", 100 * spread0, 100 * spread300)), report);
+        assertTrue(spread0 > 0.08 && spread0 < 0.09 && spread300 > 0.05 && spread300 < 0.06, spread0 + " " + spread300);
         for (String name : new String[] {"neon-lamp.csv", "calibration.json", "calibration-residuals.png",
             "discharge.csv", "discharge.png", "discharge-peaks.csv"}) {
             assertTrue(Files.size(dir.resolve("out").resolve(name)) > 100, name);

@@ -50,14 +50,42 @@ class HyperfineCommandTest {
                 "--format", "csv");
         assertEquals(0, run.code(), run.err());
         String[] rows = run.out().strip().split("\n");
-        assertEquals("species,lower_f,intermediate_f,upper_f,first_frequency_hz,first_offset_mhz,"
-                + "first_vacuum_wavelength_nm,second_frequency_hz,second_offset_mhz,second_vacuum_wavelength_nm",
+        assertEquals("species,lower,intermediate,upper,lower_f,intermediate_f,upper_f,first_frequency_hz,"
+                + "first_offset_mhz,first_vacuum_wavelength_nm,first_air_wavelength_nm,second_frequency_hz,"
+                + "second_offset_mhz,second_vacuum_wavelength_nm,second_air_wavelength_nm",
                 rows[0].replace("\"", "")); // the CSV writer quotes names of more than 24 characters
         assertEquals(11, rows.length, run.out());
-        String lock = java.util.Arrays.stream(rows).filter(r -> r.startsWith("\"Rb-87 I\",2,3,2,")).findFirst()
-                .orElseThrow();
-        assertEquals(-2369.2652, Double.parseDouble(lock.split(",")[5]), 1e-4, lock);
+        String lock = java.util.Arrays.stream(rows).filter(r -> r.replace("\"", "")
+                .startsWith("Rb-87 I,5s 2S1/2,5p 2P3/2,60s 2S1/2,2,3,2,")).findFirst().orElseThrow();
+        assertEquals(-2369.2652, Double.parseDouble(lock.split(",")[8]), 1e-4, lock);
         assertTrue(run.err().contains("a Rydberg level's A and B are scaled with n*"), run.err());
+        // JSON: the ladder's states on every row, and each step in standard air too, by the same air model as
+        // the plain --ladder (Medium.air(), the standard air of the api), so the refusal of --medium air stays true
+        CliTest.Run json = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,50d5/2",
+                "--hyperfine", "--format", "json");
+        assertEquals(0, json.code(), json.err());
+        tools.jackson.databind.json.JsonMapper mapper = tools.jackson.databind.json.JsonMapper.builder().build();
+        for (String line : json.out().strip().split("\\R")) {
+            tools.jackson.databind.JsonNode row = mapper.readTree(line);
+            assertEquals("5s 2S1/2", row.get("lower").asString());
+            assertEquals("5p 2P3/2", row.get("intermediate").asString());
+            assertEquals("50d 2D5/2", row.get("upper").asString());
+            for (String step : new String[] {"first", "second"}) {
+                double vacuum = row.get(step + "_vacuum_wavelength_nm").asDouble();
+                assertEquals(org.ritzwerk.medium.Medium.air().fromVacuum(vacuum * 1e-9) * 1e9,
+                        row.get(step + "_air_wavelength_nm").asDouble(), 1e-9, line);
+            }
+        }
+        // the lock path's step 2 (F' = 3 -> F'' = 4) in air: 479.99126 nm, 0.00015 nm above the plain ladder's
+        // centroid 479.991107 nm (F' = 3 lies 193.7 MHz above the 5p3/2 centroid; README example)
+        String lockRow = java.util.Arrays.stream(json.out().strip().split("\\R"))
+                .filter(l -> l.contains("\"lower_f\":\"2\",\"intermediate_f\":\"3\",\"upper_f\":\"4\""))
+                .findFirst().orElseThrow();
+        assertEquals(479.99126, mapper.readTree(lockRow).get("second_air_wavelength_nm").asDouble(), 1e-5, lockRow);
+        CliTest.Run medium = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,50d5/2",
+                "--hyperfine", "--medium", "air");
+        assertEquals(2, medium.code(), medium.err());
+        assertTrue(medium.err().contains("--ladder prints its states' lines in vacuum and air"), medium.err());
         CliTest.Run na = CliTest.run("lines", "--species", "Na-23 I", "--ladder", "3s1/2,3p3/2,30d5/2", "--hyperfine");
         assertEquals(2, na.code(), na.err());
         assertTrue(na.err().contains("--ladder with --hyperfine: no hyperfine constants for Na-23 I 30d5/2"), na.err());
@@ -149,5 +177,29 @@ class HyperfineCommandTest {
         CliTest.Run window = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--from", "1 GHz");
         assertEquals(2, window.code());
         assertTrue(window.err().contains("--from has no effect with --hyperfine"), window.err());
+        // a field with a unit: the option takes tesla as a plain number, and the message says how to write 1 G
+        CliTest.Run gauss = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1 G");
+        assertEquals(2, gauss.code(), gauss.err());
+        assertTrue(gauss.err().contains("--field-tesla takes the field in tesla as a plain number, without a unit "
+                + "(e.g. 1e-4 for 1 G"), gauss.err());
+        // an isotope without level data (Rb-86: radioactive, no quantum defects or levels built in) is named as such
+        CliTest.Run rb86 = CliTest.run("lines", "--species", "Rb-86 I", "--hyperfine");
+        assertEquals(2, rb86.code(), rb86.err());
+        assertTrue(rb86.err().contains("no alkali level data (quantum defects and levels, hence no lines, lifetimes or "
+                + "hyperfine structure) for Rb-86 I; isotopes with level data: Li-6 I"), rb86.err());
+        // the note on levels listed unsplit points to a README section that exists
+        CliTest.Run unsplit = CliTest.run("levels", "--species", "Rb-87 I", "--hyperfine", "--n-max", "6");
+        assertEquals(0, unsplit.code(), unsplit.err());
+        assertTrue(unsplit.err().contains("README, Built-in reference data, names the levels that have them"),
+                unsplit.err());
+        assertTrue(readme().contains("### Built-in reference data"));
+    }
+
+    private static String readme() {
+        try {
+            return java.nio.file.Files.readString(java.nio.file.Path.of("..", "README.md"));
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException(e);
+        }
     }
 }

@@ -43,7 +43,8 @@ import org.ritzwerk.refdata.internal.RydbergData;
  * {@link DataContext#alkaliAtom} and {@link RydbergData#atom} put them in place of the natural
  * element's levels ({@link #withResonanceLevels}), so each isotope's first p levels are its own.
  *
- * <p><b>Hyperfine constants.</b> A and B (MHz) of the ground and first p levels; with the nuclear
+ * <p><b>Hyperfine constants.</b> A and B (MHz) of the ground and first p levels, and of the levels above
+ * them that have a measurement here (Cs-133 7p1/2 and 7p3/2); with the nuclear
  * spin from the nuclear data they give the F levels, the F -> F' components of the D lines
  * ({@link #components}) and, with the g factors, their Zeeman components ({@link #zeemanComponents}).
  *

@@ -276,9 +276,10 @@ public final class DataContext {
                 .filter(l -> l.info().kind() == DataKind.QUANTUM_DEFECTS && l.info().species().contains(species))
                 .findFirst().orElse(null);
         if (listing == null) {
-            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no Rydberg data for "
-                    + species.notation() + "; available: " + alkaliSpecies().stream().map(Species::notation)
-                            .collect(Collectors.joining(", ")));
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no alkali level data "
+                    + "(quantum defects and levels, hence no lines, lifetimes or hyperfine structure) for "
+                    + species.notation() + "; isotopes with level data: "
+                    + alkaliSpecies().stream().map(Species::notation).collect(Collectors.joining(", ")));
         }
         String id = listing.info().id();
         DataSet set = registry.load(id);
@@ -381,6 +382,15 @@ public final class DataContext {
     }
 
     /**
+     * @return the built-in measured lifetimes of alkali levels whose computed lifetimes rest on computed
+     *         dipole elements, with the comparison that names a miss beyond the stated uncertainty (built-in
+     *         only, like {@link #alkaliDipoles()})
+     */
+    public LifetimeChecks lifetimeChecks() {
+        return LifetimeChecks.builtIn();
+    }
+
+    /**
      * @return the built-in hyperfine constants of alkali Rydberg series, scaled as n*^-3 from
      *         published measurements (built-in only, like {@link #alkaliHyperfine()}); their F
      *         levels take this context for nuclear spins and the atoms' levels
@@ -393,7 +403,7 @@ public final class DataContext {
      * @param species a neutral alkali isotope
      * @param state   a level, e.g. 5p 2P3/2 or 60s 2S1/2
      * @return the hyperfine constants that apply to it: the measured ones where
-     *         {@link #alkaliHyperfine()} has them (ground and first p levels), else the n*^-3-scaled
+     *         {@link #alkaliHyperfine()} has them (ground and first p levels, Cs-133 7p), else the n*^-3-scaled
      *         ones of {@link #rydbergHyperfine()}; empty when neither has the level
      */
     public Optional<HyperfineConstants> hyperfineConstants(Species species, State state) {

@@ -21,8 +21,9 @@ import org.ritzwerk.refdata.internal.BuiltInCsv;
  * at one level of the series, or {@code A(n) = Abar / n*^3} from a published scaled constant
  * (likewise B), with {@code n* = sqrt(R_M / (E_limit - E))} of the isotope's own levels and limit
  * (the n^-3 scaling of the valence electron's density at the nucleus; common practice). The
- * measured constants of the ground and first p levels are {@link AlkaliHyperfine}'s; this class
- * serves the levels of a series from its {@code from-n} on. An isotope without a row of its own for
+ * measured constants of the ground and first p levels (and of Cs-133 7p) are {@link AlkaliHyperfine}'s
+ * and take precedence ({@link DataContext#hyperfineConstants}); this class serves the other levels of
+ * a series from its {@code from-n} on. An isotope without a row of its own for
  * a series borrows another isotope's row of the same element, A times the ratio of the two isotopes'
  * measured ground-level A constants and B times that of their first p3/2 B constants (common
  * practice; hyperfine anomalies of a few 0.1 % neglected). The built-in file is

@@ -16,8 +16,11 @@ import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
+import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.data.MeasuredLevel;
+import org.ritzwerk.data.Provenance;
 import org.ritzwerk.engine.hyperfine.HyperfineComponent;
+import org.ritzwerk.engine.hyperfine.HyperfineConstants;
 import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.hyperfine.ZeemanComponent;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
@@ -136,6 +139,32 @@ class AlkaliHyperfineTest {
         check("Na-23 I", "3p3/2", new double[] {58.326, 34.344, 15.810}, "Yei, Sieradzan and Havey 1993, from memory");
         check("Li-6 I", "2p1/2", new double[] {26.108}, "Y.-C. Huang, PhD thesis, NTHU (2018), read in its abstract");
         check("Li-7 I", "2p1/2", new double[] {91.873}, "Y.-C. Huang, PhD thesis, NTHU (2018), read in its abstract");
+    }
+
+    @Test
+    void caesiumSevenPTakesItsMeasuredConstantsNotTheScaledSeries() {
+        Species cs = Species.parse("Cs-133 I");
+        // 7p1/2: A = 94.38(6) MHz (Compact 459 nm Cs cell optical frequency standard, arXiv:2206.09409, read in the
+        // abstract); 7p3/2: A = 16.605(6) MHz, B = -0.15(3) MHz (Arimondo, Inguscio and Violino 1977, from memory)
+        HyperfineConstants p12 = CONTEXT.hyperfineConstants(cs, State.parse("7p1/2")).orElseThrow();
+        HyperfineConstants p32 = CONTEXT.hyperfineConstants(cs, State.parse("7p3/2")).orElseThrow();
+        assertEquals(94.38e6, p12.aHertz(), 1e-3);
+        assertEquals(16.605e6, p32.aHertz(), 1e-3);
+        assertEquals(-0.15e6, p32.bHertz(), 1e-3);
+        assertTrue(p12.source().contains("arXiv:2206.09409") && !p12.source().contains("n*^-3"), p12.source());
+        assertTrue(p32.source().contains("Rev. Mod. Phys. 49") && !p32.source().contains("n*^-3"), p32.source());
+        // a from-memory 7p row is not attributed to a D-line compilation, which tabulates no 7p constants
+        var row = CONTEXT.alkaliHyperfine().constants(cs, State.parse("7p3/2")).orElseThrow();
+        assertEquals(Provenance.Kind.FROM_MEMORY, row.provenance());
+        assertFalse(row.source().contains("Steck"), row.source());
+        // the scaled series still serves 8p: A n*^-3 of Song et al. 2024's 3.760 GHz (read in the abstract)
+        HyperfineConstants p8 = CONTEXT.hyperfineConstants(cs, State.parse("8p1/2")).orElseThrow();
+        double nStar = CONTEXT.alkaliAtom(cs).level(State.parse("8p1/2")).effectiveN();
+        assertEquals(3760e6 / Math.pow(nStar, 3), p8.aHertz(), 1e-3 * p8.aHertz());
+        // the 7p3/2 F' = 5 - 4 interval: 5A + (5/7)B = 82.918 MHz (Casimir formula with I = 7/2, J = 3/2)
+        var f = CONTEXT.hyperfineLevels(cs, State.parse("7p3/2"));
+        double hz = (f.get(3).energyPerCm() - f.get(2).energyPerCm()) * PhysicalConstants.C * 100;
+        assertEquals(5 * 16.605e6 + 5.0 / 7 * -0.15e6, hz, 1e3);
     }
 
     private static double groundSplitting(String name) {

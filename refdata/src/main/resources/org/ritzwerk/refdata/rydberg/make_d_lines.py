@@ -11,8 +11,8 @@ Outputs (beside this script):
                             source prints (MHz or kHz; cm-1 where only a wavenumber was at hand),
                             format ritzwerk-d-lines 1
   hyperfine-constants.csv   magnetic-dipole (A) and electric-quadrupole (B) hyperfine constants of
-                            the ground level and the first p levels, in MHz, format
-                            ritzwerk-hyperfine 1
+                            the ground level and the first p levels, and of the Cs-133 7p levels
+                            (the 459 nm and 455 nm lines), in MHz, format ritzwerk-hyperfine 1
   d-line-checks.txt         every check below, with its numbers
 
 Hyperfine-free centroid: the frequency the line would have without hyperfine structure, i.e.
@@ -35,7 +35,11 @@ from as the citation, and each is checked by a relation that does not use it:
       level of the natural element (K: abundances 93.2581 %, 0.0117 %, 6.7302 % as in T. G. Tiecke,
       Properties of Potassium, v1.02, Table 1, read; Rb: 72.17 % and 27.83 %, IUPAC, from memory);
   check H (splitting): the hyperfine splitting the constants give, against a published splitting
-      read in an abstract or known exactly (Cs-133 ground level: 9 192 631 770 Hz, the SI second).
+      read in an abstract or known exactly (Cs-133 ground level: 9 192 631 770 Hz, the SI second);
+  check R (series regularity, levels above the first p): A n*^3 against the first p level of the same
+      series, and A(np1/2) / A(np3/2) against the first p levels' ratio (both nearly constant along a
+      series: common practice), n* = sqrt(R_M / (E_limit - E)) from levels-<atom>.csv and the limit of
+      quantum-defects-<atom>.csv (R_M from the atomic mass in ../nuclear/isotopes.csv).
 """
 
 from decimal import Decimal
@@ -75,6 +79,8 @@ GERGINOV_2003 = ("V. Gerginov, A. Derevianko and C. E. Tanner, Phys. Rev. Lett. 
                  "doi:10.1103/PhysRevLett.91.072501")
 ARIMONDO_1977 = ("E. Arimondo, M. Inguscio and P. Violino, Rev. Mod. Phys. 49, 31 (1977), "
                  "doi:10.1103/RevModPhys.49.31")
+CS_7P_2022 = ("Compact 459 nm Cs cell optical frequency standard with short-term stability, arXiv:2206.09409 "
+              "(2022)")
 BIZE_1999 = ("S. Bize, Y. Sortais, M. S. Santos, C. Mandache, A. Clairon and C. Salomon, Europhys. Lett. 45, 558 "
              "(1999), doi:10.1209/epl/i1999-00203-9")
 SI_SECOND = ("the SI definition of the second (BIPM, The International System of Units, 9th edition, 2019): "
@@ -157,11 +163,18 @@ HYPERFINE = [
     ("Cs-133", "6p 2P1/2", "291.9309", "0.0012", "", "", "published",
      GERGINOV_2006 + " (read in the abstract: 6p 2P1/2 splitting 1 167 723.6(4.8) kHz; A = splitting / 4)"),
     ("Cs-133", "6p 2P3/2", "50.28827", "0.00023", "-0.4934", "0.0017", "from-memory", GERGINOV_2003),
+    # Cs 7p: lasers at 459 nm (6s - 7p1/2) and 455 nm (6s - 7p3/2) lock to these F' levels; without rows here
+    # the levels took the Rydberg series' n*^-3-scaled constants of rydberg-hyperfine.csv (A 3.7 % and 9 % high).
+    ("Cs-133", "7p 2P1/2", "94.38", "0.06", "", "", "published",
+     CS_7P_2022 + " (authors not read; read in the abstract: A of the 7P1/2 level 94.38(6) MHz)"),
+    ("Cs-133", "7p 2P3/2", "16.605", "0.006", "-0.15", "0.03", "from-memory", ARIMONDO_1977),
 ]
 
 
 # Where the from-memory digits were recalled from: the alkali data compilations that tabulate these
-# measurements (standard references; their titles and revisions were found, their tables not read).
+# measurements (standard references; their titles and revisions were found, their tables not read).  They
+# tabulate the D lines and the ground and first p levels only; a level above those (Cs 7p) was recalled from
+# the table of the review it cites.
 RECALLED_FROM = {
     "Na-23": "D. A. Steck, Sodium D Line Data (revision 2.0.1, 2008)",
     "K-39": "T. G. Tiecke, Properties of Potassium (v1.02, 2011)",
@@ -173,10 +186,16 @@ RECALLED_FROM = {
 }
 
 
-def recalled(species, provenance, source):
+# n of the ground level (= n of the first p levels) per element: the levels the compilations tabulate.
+GROUND_N = {"Li": 2, "Na": 3, "K": 4, "Rb": 5, "Cs": 6}
+
+
+def recalled(species, provenance, source, level=None):
     """The source text of a row; for a from-memory row, also the compilation its digits were recalled as in."""
     if provenance != "from-memory" or species not in RECALLED_FROM or source.startswith("NIST"):
         return source
+    if level is not None and int(level.split()[0][:-1]) != GROUND_N[species.split("-")[0]]:
+        return source + " (digits recalled from its table; the attribution is recalled too)"
     return source + " (digits recalled as tabulated in " + RECALLED_FROM[species] + "; the attribution to this " \
                     "measurement is recalled too)"
 
@@ -226,6 +245,40 @@ def splittings(species, level):
             e = [casimir(float(a), float(b) if b else 0.0, i, j, f) for f in fs]
             return fs, e
     raise KeyError((species, level))
+
+
+R_INF_PER_CM = 109737.31568160  # CODATA 2018 (as make_rydberg_data.py)
+ELECTRON_MASS_U = 5.48579909065e-4  # CODATA 2018 (as make_rydberg_data.py)
+
+
+def atomic_mass_u(species):
+    """The atomic mass of ../nuclear/isotopes.csv (AME2020)."""
+    symbol, a = species.split("-")
+    with open("../nuclear/isotopes.csv") as f:
+        for row in f:
+            cells = row.strip().split(",")
+            if not row.startswith("#") and len(cells) > 3 and cells[1] == a and cells[2] == symbol:
+                return float(cells[3])
+    raise KeyError(species)
+
+
+def n_star(species, level):
+    """n* = sqrt(R_M / (E_limit - E)) of a level of levels-<atom>.csv, with quantum-defects-<atom>.csv's limit."""
+    atom = species.lower()
+    limit = None
+    with open("quantum-defects-%s.csv" % atom) as f:
+        for row in f:
+            if row.startswith("# limit: "):
+                limit = float(row.split()[2])
+    energy = None
+    with open("levels-%s.csv" % atom) as f:
+        for row in f:
+            cells = row.split(",")
+            if len(cells) > 2 and cells[1] == level:
+                energy = float(cells[2])
+    core = atomic_mass_u(species) - ELECTRON_MASS_U
+    r_m = R_INF_PER_CM / (1.0 + ELECTRON_MASS_U / core)
+    return (r_m / (limit - energy)) ** 0.5
 
 
 def main():
@@ -298,6 +351,35 @@ def main():
         fs, e = splittings(s, lv)
         gaps = ["F=%s-%s %.4f" % (fmt_f(fs[k + 1]), fmt_f(fs[k]), e[k + 1] - e[k]) for k in range(len(fs) - 1)]
         hf_checked[(s, lv)] = ["splittings (MHz): " + ", ".join(gaps)]
+    # check R: levels above the first p against the first p levels of their series
+    for s, lv, a, da, b, db, prov, src in HYPERFINE:
+        n = int(lv.split()[0][:-1])
+        if n == GROUND_N[s.split("-")[0]]:
+            continue
+        first = [h for h in HYPERFINE if h[0] == s and h[1] == "%dp%s" % (GROUND_N[s.split("-")[0]], lv[len(str(n)) + 1:])][0]
+        scaled = float(a) * n_star(s, lv) ** 3
+        scaled_first = float(first[2]) * n_star(s, first[1]) ** 3
+        text = "check R: A n*^3 = %.1f MHz (n* %.5f) against %.1f MHz of %s (n* %.5f): %+.1f %%" % (
+            scaled, n_star(s, lv), scaled_first, first[1], n_star(s, first[1]), 100 * (scaled / scaled_first - 1))
+        hf_checked[(s, lv)].append(text)
+        report.append(s + " " + lv + " " + text)
+    for s, lv, a, da, b, db, prov, src in HYPERFINE:
+        n = int(lv.split()[0][:-1])
+        if n == GROUND_N[s.split("-")[0]] or not lv.endswith("P1/2"):
+            continue
+        lv32 = lv.replace("P1/2", "P3/2")
+        upper = [h for h in HYPERFINE if h[0] == s and h[1] == lv32]
+        if not upper:
+            continue
+        g = "%dp" % GROUND_N[s.split("-")[0]]
+        ratio = float(a) / float(upper[0][2])
+        ratio_first = float([h for h in HYPERFINE if h[0] == s and h[1] == g + " 2P1/2"][0][2]) / float(
+            [h for h in HYPERFINE if h[0] == s and h[1] == g + " 2P3/2"][0][2])
+        text = "check R: A(%s)/A(%s) = %.3f against A(%s 2P1/2)/A(%s 2P3/2) = %.3f: %+.1f %%" % (
+            lv, lv32, ratio, g, g, ratio_first, 100 * (ratio / ratio_first - 1))
+        hf_checked[(s, lv)].append(text)
+        hf_checked[(s, lv32)].append(text)
+        report.append(s + " " + text)
     pairs = [("Li-7", "Li-6"), ("K-40", "K-39"), ("K-41", "K-39"), ("Rb-87", "Rb-85")]
     for x, y in pairs:
         gratio = g_nuclear(x) / g_nuclear(y)
@@ -342,10 +424,10 @@ def main():
     hf = ["# ritzwerk-hyperfine 1",
           "# id: hyperfine-constants",
           "# title: Magnetic-dipole (A) and electric-quadrupole (B) hyperfine constants of the alkali ground and "
-          "first p levels, per isotope",
+          "first p levels, and of the Cs-133 7p levels, per isotope",
           "# source: " + ARIMONDO_1977 + ", and the later measurements named per row",
           "# provenance: from-memory",
-          "# version: 1977-2006",
+          "# version: 1977-2022",
           "# unit: MHz",
           "# note: A and B in MHz (energy / h) with the digits their source prints; B only for J > 1/2; the "
           "hyperfine energy of level F is A K/2 + B (3K(K+1)/2 - 2I(I+1)J(J+1)) / (4I(2I-1)J(2J-1)), K = "
@@ -353,7 +435,7 @@ def main():
           "checked gives the splittings and the checks (d-line-checks.txt; written by make_d_lines.py)",
           "species,level,a,a-uncertainty,b,b-uncertainty,provenance,source,checked"]
     for s, lv, a, da, b, db, prov, src in HYPERFINE:
-        hf.append(",".join([s + " I", lv, a, da, b, db, prov, recalled(s, prov, src).replace(",", ";"),
+        hf.append(",".join([s + " I", lv, a, da, b, db, prov, recalled(s, prov, src, lv).replace(",", ";"),
                             "; ".join(hf_checked[(s, lv)]).replace(",", ";")]))
     with open("hyperfine-constants.csv", "w") as f:
         f.write("\n".join(hf) + "\n")
