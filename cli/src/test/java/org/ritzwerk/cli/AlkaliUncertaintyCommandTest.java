@@ -123,8 +123,8 @@ class AlkaliUncertaintyCommandTest {
     }
 
     /**
-     * Cs 7p lifetimes come out 12 and 15 % short of measurement (about 133 and 155 ns, as recalled in the review
-     * of issue 17, from memory; rydberg/lifetime-checks.csv) while their stated u is 3-4 %: levels --lifetimes
+     * Cs 7p lifetimes come out 12 and 15 % short of measurement (about 133 and 155 ns, from memory;
+     * rydberg/lifetime-checks.csv) while their stated u is 3-4 %: levels --lifetimes
      * and lines --transition say so on standard error; Rb, whose listed lifetimes are met, gets no such note.
      */
     @Test

@@ -23,7 +23,7 @@ class LifetimeChecksTest {
     void caesiumSevenPIsTheOnlyKnownMiss() {
         Species cs = Species.parse("Cs-133 I");
         List<LifetimeChecks.Miss> misses = CONTEXT.lifetimeChecks().misses(CONTEXT.alkaliAtom(cs), cs);
-        // Cs 7p3/2 and 7p1/2: about 133 and 155 ns (as recalled in the review of issue 17, from memory) against
+        // Cs 7p3/2 and 7p1/2: about 133 and 155 ns (from memory) against
         // 116.9 +- 3.9 and 131.4 +- 5.1 ns computed: 12 and 15 % short, the stated u (the model spread) far below
         assertEquals(List.of(State.parse("7p3/2"), State.parse("7p1/2")),
                 misses.stream().map(LifetimeChecks.Miss::state).toList(), misses.toString());
