@@ -1,8 +1,6 @@
 package org.ritzwerk.refdata;
 
-import java.io.IOException;
 import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.List;
@@ -78,15 +76,7 @@ public final class AlkaliDipoles {
             synchronized (AlkaliDipoles.class) {
                 data = builtIn;
                 if (data == null) {
-                    String file = "rydberg/dipole-elements.csv";
-                    try (InputStream in = AlkaliDipoles.class.getResourceAsStream(file)) {
-                        if (in == null) {
-                            throw new IllegalStateException("built-in data file missing from the jar: " + file);
-                        }
-                        data = read(in, file);
-                    } catch (IOException e) {
-                        throw new UncheckedIOException(e.getMessage(), e);
-                    }
+                    data = BuiltInCsv.resource(AlkaliDipoles.class, "rydberg/dipole-elements.csv", AlkaliDipoles::read);
                     builtIn = data;
                 }
             }

@@ -1,8 +1,6 @@
 package org.ritzwerk.refdata;
 
-import java.io.IOException;
 import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.List;
@@ -89,15 +87,7 @@ public final class LifetimeChecks {
             synchronized (LifetimeChecks.class) {
                 data = builtIn;
                 if (data == null) {
-                    String file = "rydberg/lifetime-checks.csv";
-                    try (InputStream in = LifetimeChecks.class.getResourceAsStream(file)) {
-                        if (in == null) {
-                            throw new IllegalStateException("built-in data file missing from the jar: " + file);
-                        }
-                        data = read(in, file);
-                    } catch (IOException e) {
-                        throw new UncheckedIOException(e.getMessage(), e);
-                    }
+                    data = BuiltInCsv.resource(LifetimeChecks.class, "rydberg/lifetime-checks.csv", LifetimeChecks::read);
                     builtIn = data;
                 }
             }

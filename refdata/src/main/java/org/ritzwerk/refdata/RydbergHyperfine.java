@@ -1,8 +1,6 @@
 package org.ritzwerk.refdata;
 
-import java.io.IOException;
 import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.List;
@@ -79,15 +77,7 @@ public final class RydbergHyperfine {
             synchronized (RydbergHyperfine.class) {
                 data = builtIn;
                 if (data == null) {
-                    String name = "rydberg/rydberg-hyperfine.csv";
-                    try (InputStream in = RydbergHyperfine.class.getResourceAsStream(name)) {
-                        if (in == null) {
-                            throw new IllegalStateException("built-in data file missing from the jar: " + name);
-                        }
-                        data = read(in, name);
-                    } catch (IOException e) {
-                        throw new UncheckedIOException(e.getMessage(), e);
-                    }
+                    data = BuiltInCsv.resource(RydbergHyperfine.class, "rydberg/rydberg-hyperfine.csv", RydbergHyperfine::read);
                     builtIn = data;
                 }
             }

@@ -98,6 +98,28 @@ public record BuiltInCsv(Map<String, String> header, List<Row> rows) {
         return new BuiltInCsv(Map.copyOf(header), List.copyOf(rows));
     }
 
+    /**
+     * Reads a data file built into the jar, beside a class.
+     *
+     * @param owner the class whose package the file's name is relative to
+     * @param file  the file's name
+     * @param read  the reader, given the bytes and the name
+     * @param <T>   what the reader makes
+     * @return what it made
+     * @throws IllegalStateException when the jar lacks the file
+     */
+    public static <T> T resource(Class<?> owner, String file,
+            java.util.function.BiFunction<java.io.InputStream, String, T> read) {
+        try (java.io.InputStream in = owner.getResourceAsStream(file)) {
+            if (in == null) {
+                throw new IllegalStateException("built-in data file missing from the jar: " + file);
+            }
+            return read.apply(in, file);
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException(e.getMessage(), e);
+        }
+    }
+
     /** @return the error for a line of a built-in file, quoting the line */
     public static ReferenceDataException bad(String name, int number, String reason, String line) {
         return new ReferenceDataException(ReferenceDataException.BAD_BUILT_IN, name + ":" + number + ": " + reason
