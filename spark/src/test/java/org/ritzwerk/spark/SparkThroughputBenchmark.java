@@ -56,7 +56,7 @@ import org.ritzwerk.refdata.DataContext;
  * times the operation, not the making of the table. The Spark operations write every column of
  * every output row to Spark's no-op sink (counting one column would let Spark skip making the
  * others). The identification baseline computes what an output row holds (the identification, the
- * matched lines' positions, the missing strong lines, the species' presence);
+ * matched lines' positions, the peaks' statuses, the missing strong lines, the species' presence);
  * {@code identifyLibrarySearchOnly} is the search alone (one thread), for the engine's share.
  * Per-core overhead = Spark local[1] / library on one thread; Spark's scaling = local[1] /
  * local[2], beside the library's own scaling from one thread to two on the same machine.
@@ -190,7 +190,8 @@ public class SparkThroughputBenchmark {
      * Baseline: the library on {@code cores} threads (the Spark master's core count), each taking
      * a contiguous share of the peak lists one after another, computing what a row of the Spark
      * operation's output holds: the identification, each matched line's position in the peaks'
-     * unit, the missing strong lines and the species' presence (the identify command's report).
+     * unit, each peak's status, the missing strong lines and the species' presence (the identify
+     * command's report).
      * On two cores its time against one core is what the machine itself gives two threads of this
      * work (the garbage collector and the JIT compiler share the same cores), the ceiling for
      * Spark's scaling.
@@ -224,6 +225,10 @@ public class SparkThroughputBenchmark {
         SpectralArrays.convert(Arrays.copyOf(matched, m), Unit.METRE, Medium.vacuum(), Unit.NANOMETRE,
                 Medium.vacuum(), converted);
         double total = m == 0 ? 0 : converted[0];
+        // Each peak's status, as the output row gives it (its species shown, not taken for a stray).
+        for (int i = 0; i < n; i++) {
+            total += id.status(i);
+        }
         total += id.missingStrongLines().length;
         for (Identification.SpeciesPresence s : id.speciesPresence()) {
             total += s.matchedByChance();
