@@ -10,7 +10,7 @@ import org.apache.spark.NarrowDependency;
 import org.apache.spark.OneToOneDependency;
 import org.apache.spark.Partition;
 import org.apache.spark.TaskContext;
-import org.apache.spark.api.java.JavaPairRDD;
+import org.apache.spark.api.java.JavaRDD;
 import org.apache.spark.rdd.RDD;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
@@ -21,19 +21,25 @@ import scala.reflect.ClassTag;
 import scala.reflect.ClassTag$;
 
 import static org.apache.spark.sql.functions.col;
+import static org.apache.spark.sql.functions.count;
+import static org.apache.spark.sql.functions.lit;
 
 /**
- * The id check of the operations in the same Spark job as their work: the ids are counted by a
- * shuffle of the ids alone, the ones that more than one row holds go to a single partition, and
- * every task of the operation reads that partition (usually empty) before its rows. So a table
- * with unique ids costs one extra read of its id column (or of its rows, where its plan shuffles)
- * and two small shuffles, in the operation's own job, with nothing collected on the driver and
- * nothing run before the action.
+ * The id check of the operations without a broadcast: the ids that more than one row holds are
+ * counted, shuffled into a single partition, and every task of the operation reads that partition
+ * (usually empty) before its rows. Where the table is read as it is (a source or a cache), Spark's
+ * own aggregation counts its id column, which Spark runs as one small job when the action starts;
+ * where the table's plan shuffles, the ids are read from the same rows and counted inside the
+ * operation's own job, so that the shuffle runs once. Nothing is collected on the driver and
+ * nothing runs before the action.
  *
- * <p>Why not a join: a broadcast join of the repeated ids makes Spark run the count and the
+ * <p>Why not a join: a broadcast join of the repeated ids made Spark run the count and the
  * broadcast as two jobs of their own, planned on the driver one after the other before the
- * operation's job starts; at 10,000 scenes on two cores that waiting took about a third of a pass
- * and most of what a second core gained (see the README's Spark figures).
+ * operation's job. Measured in pairs of passes with and without the check
+ * ({@code spark/benchmark id-check-cost}): 228 ms against 116 ms here for 10,000 scenes on two
+ * cores, 322 ms against 228 ms for 200,000 peak lists on one. Counting Java objects by a shuffle
+ * of every id instead cost 750 ms for those lists, which is why the source case uses Spark's
+ * aggregation.
  */
 final class RepeatedIds {
 
@@ -63,19 +69,30 @@ final class RepeatedIds {
      * @return the task's rows, one partition per partition of {@code rows}; lazy
      */
     static RDD<InternalRow> checked(Dataset<Row> selected, RDD<InternalRow> rows, Task task) {
-        int reducers = Math.max(1, rows.context().defaultParallelism());
-        // The ids alone where the table is read from a source or a cache (a columnar source or
-        // cache then reads that one column); the same rows where the table's plan shuffles, so
-        // that the shuffle runs once for both (a second plan of the id column would run it again).
-        RDD<InternalRow> ids = Catalyst.exchanges(selected) ? rows
-                : Catalyst.rows(selected.select(col(selected.columns()[0])));
-        JavaPairRDD<String, Long> counted = ids.toJavaRDD().filter(row -> !row.isNullAt(0))
-                .mapToPair(row -> new Tuple2<>(row.getUTF8String(0).toString(), 1L))
-                .reduceByKey(Long::sum, reducers);
-        // The repeated ids, shuffled into one partition (the count itself stays spread over the reducers).
-        RDD<Tuple2<String, Long>> repeated = counted.filter(pair -> pair._2() > 1).coalesce(1, true).rdd();
-        return new WithRepeated(rows, repeated, task);
+        JavaRDD<Tuple2<String, Long>> repeated;
+        if (Catalyst.exchanges(selected)) {
+            // The same rows where the table's plan shuffles, so that the shuffle runs once for both (a
+            // second plan of the id column would run it again); counted by a shuffle of the ids.
+            int reducers = Math.max(1, rows.context().defaultParallelism());
+            repeated = rows.toJavaRDD().filter(row -> !row.isNullAt(0))
+                    .mapToPair(row -> new Tuple2<>(row.getUTF8String(0).toString(), 1L))
+                    .reduceByKey(Long::sum, reducers).filter(pair -> pair._2() > 1)
+                    .map(pair -> new Tuple2<>(pair._1(), pair._2()));
+        } else {
+            // The id column alone where the table is read from a source or a cache (a columnar source
+            // or cache then reads that one column), counted by Spark's own aggregation, whose rows
+            // are far cheaper to shuffle than Java objects (see the class comment).
+            String id = selected.columns()[0];
+            repeated = Catalyst.rows(selected.groupBy(col(id).as(KEY)).agg(count(lit(1)).as(COPIES))
+                    .where(col(COPIES).gt(1))).toJavaRDD()
+                    .map(row -> new Tuple2<>(row.getUTF8String(0).toString(), row.getLong(1)));
+        }
+        // The repeated ids, shuffled into one partition that every task reads.
+        return new WithRepeated(rows, repeated.coalesce(1, true).rdd(), task);
     }
+
+    private static final String KEY = "_ritzwerk_id";
+    private static final String COPIES = "_ritzwerk_id_copies";
 
     /** A partition of the rows beside the one partition of the repeated ids. */
     private record Pair(int index, Partition rows, Partition repeated) implements Partition {
