@@ -44,6 +44,8 @@ import static org.apache.spark.sql.functions.lit;
 final class RepeatedIds {
 
     private static final ClassTag<InternalRow> ROWS = ClassTag$.MODULE$.apply(InternalRow.class);
+    private static final String KEY = "_ritzwerk_id";
+    private static final String COPIES = "_ritzwerk_id_copies";
 
     private RepeatedIds() {
     }
@@ -82,17 +84,15 @@ final class RepeatedIds {
             // The id column alone where the table is read from a source or a cache (a columnar source
             // or cache then reads that one column), counted by Spark's own aggregation, whose rows
             // are far cheaper to shuffle than Java objects (see the class comment).
+            // (A null id is not counted: the operation refuses each such row by itself.)
             String id = selected.columns()[0];
-            repeated = Catalyst.rows(selected.groupBy(col(id).as(KEY)).agg(count(lit(1)).as(COPIES))
-                    .where(col(COPIES).gt(1))).toJavaRDD()
+            repeated = Catalyst.rows(selected.where(col(id).isNotNull()).groupBy(col(id).as(KEY))
+                    .agg(count(lit(1)).as(COPIES)).where(col(COPIES).gt(1))).toJavaRDD()
                     .map(row -> new Tuple2<>(row.getUTF8String(0).toString(), row.getLong(1)));
         }
         // The repeated ids, shuffled into one partition that every task reads.
         return new WithRepeated(rows, repeated.coalesce(1, true).rdd(), task);
     }
-
-    private static final String KEY = "_ritzwerk_id";
-    private static final String COPIES = "_ritzwerk_id_copies";
 
     /** A partition of the rows beside the one partition of the repeated ids. */
     private record Pair(int index, Partition rows, Partition repeated) implements Partition {

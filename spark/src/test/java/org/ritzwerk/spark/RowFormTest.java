@@ -412,6 +412,11 @@ class RowFormTest {
         // An empty table, as made and as filtered to nothing after a shuffle.
         assertEquals(0, synthesis.synthesise(spark.createDataFrame(List.<Row>of(), Schemas.SCENES)).count());
         assertEquals(0, synthesis.synthesise(sceneTable.where("id = 'none'")).collectAsList().size());
+        // Two rows without an id: each is refused as such, not counted as a repeat (nor a failure of the count).
+        Row nameless = RowFactory.create(null, new String[] {"H I"}, null, 8000.0, null, 0.0, 5000.0, 1L);
+        String refusal = SurveyIdentificationTest.failure(() -> synthesis.synthesise(spark.createDataFrame(
+                List.of(nameless, nameless, scenes.get(0)), Schemas.SCENES)).count());
+        assertTrue(refusal.contains("a row's id is null"), refusal);
         // A repeat whose two rows lie in different partitions.
         List<Row> repeated = List.of(scenes.get(0), scenes.get(1), scenes.get(0));
         String message = SurveyIdentificationTest.failure(() -> synthesis.synthesise(
