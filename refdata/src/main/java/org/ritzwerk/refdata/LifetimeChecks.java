@@ -87,7 +87,8 @@ public final class LifetimeChecks {
             synchronized (LifetimeChecks.class) {
                 data = builtIn;
                 if (data == null) {
-                    data = BuiltInCsv.resource(LifetimeChecks.class, "rydberg/lifetime-checks.csv", LifetimeChecks::read);
+                    data = BuiltInCsv.resource(LifetimeChecks.class, "rydberg/lifetime-checks.csv",
+                            LifetimeChecks::read);
                     builtIn = data;
                 }
             }

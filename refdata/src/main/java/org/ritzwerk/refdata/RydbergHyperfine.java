@@ -77,7 +77,8 @@ public final class RydbergHyperfine {
             synchronized (RydbergHyperfine.class) {
                 data = builtIn;
                 if (data == null) {
-                    data = BuiltInCsv.resource(RydbergHyperfine.class, "rydberg/rydberg-hyperfine.csv", RydbergHyperfine::read);
+                    data = BuiltInCsv.resource(RydbergHyperfine.class, "rydberg/rydberg-hyperfine.csv",
+                            RydbergHyperfine::read);
                     builtIn = data;
                 }
             }

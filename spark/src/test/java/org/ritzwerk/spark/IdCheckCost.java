@@ -73,7 +73,8 @@ public final class IdCheckCost {
             }
         }
         System.out.printf(Locale.ROOT, "local[%d], %d %s, %d pairs after %d warm-up: median with the check %.0f ms,"
-                + " without %.0f ms, median difference of a pair %.0f ms%n", cores, scenes, identify ? "peak lists" : "scenes",
+                + " without %.0f ms, median difference of a pair %.0f ms%n", cores, scenes,
+                identify ? "peak lists" : "scenes",
                 passes - WARM_UP, WARM_UP,
                 median(with), median(without), median(difference));
         spark.stop();
