@@ -176,8 +176,8 @@ final class Setups {
      * another row shares, the number of rows with that id. Spark counts the ids in jobs of their
      * own before the plan's job (a read of the id column, a shuffle of the distinct ids, the
      * repeated ones broadcast back), so this serves a table joined with another anyway (science
-     * spectra with their calibrations); the operations' own path counts the ids inside its job
-     * instead ({@link RepeatedIds}).
+     * spectra with their calibrations); the operations' own path hands the repeated ids to its tasks
+     * without a broadcast instead ({@link RepeatedIds}).
      */
     static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields) {
         return checkedColumns(table, fields, true);
