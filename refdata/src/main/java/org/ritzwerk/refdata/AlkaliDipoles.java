@@ -56,9 +56,20 @@ public final class AlkaliDipoles {
          * @return whether this row serves it
          */
         public boolean serves(Species candidate) {
-            return species.z() == candidate.z() && species.charge() == candidate.charge()
-                    && (species.massNumber() == 0 || species.massNumber() == candidate.massNumber());
+            return AlkaliDipoles.serves(species, candidate);
         }
+    }
+
+    /**
+     * @param row       a row's species: an element (no mass number) or an isotope
+     * @param candidate an isotope
+     * @return whether the row serves the isotope: an element's row serves each of its isotopes, an
+     *         isotope's row that isotope only (common practice for these tables: isotope effects
+     *         lie far below their uncertainties)
+     */
+    static boolean serves(Species row, Species candidate) {
+        return row.z() == candidate.z() && row.charge() == candidate.charge()
+                && (row.massNumber() == 0 || row.massNumber() == candidate.massNumber());
     }
 
     private final List<Row> rows;

@@ -52,8 +52,7 @@ public final class LifetimeChecks {
          * @return whether this row serves it
          */
         public boolean serves(Species candidate) {
-            return species.z() == candidate.z() && species.charge() == candidate.charge()
-                    && (species.massNumber() == 0 || species.massNumber() == candidate.massNumber());
+            return AlkaliDipoles.serves(species, candidate);
         }
     }
 
