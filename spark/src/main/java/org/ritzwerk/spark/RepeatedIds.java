@@ -20,10 +20,6 @@ import scala.jdk.javaapi.CollectionConverters;
 import scala.reflect.ClassTag;
 import scala.reflect.ClassTag$;
 
-import static org.apache.spark.sql.functions.col;
-import static org.apache.spark.sql.functions.count;
-import static org.apache.spark.sql.functions.lit;
-
 /**
  * The id check of the operations without a broadcast: the ids that more than one row holds are
  * counted, shuffled into a single partition, and every task of the operation reads that partition
@@ -44,8 +40,6 @@ import static org.apache.spark.sql.functions.lit;
 final class RepeatedIds {
 
     private static final ClassTag<InternalRow> ROWS = ClassTag$.MODULE$.apply(InternalRow.class);
-    private static final String KEY = "_ritzwerk_id";
-    private static final String COPIES = "_ritzwerk_id_copies";
 
     private RepeatedIds() {
     }
@@ -84,10 +78,7 @@ final class RepeatedIds {
             // The id column alone where the table is read from a source or a cache (a columnar source
             // or cache then reads that one column), counted by Spark's own aggregation, whose rows
             // are far cheaper to shuffle than Java objects (see the class comment).
-            // (A null id is not counted: the operation refuses each such row by itself.)
-            String id = selected.columns()[0];
-            repeated = Catalyst.rows(selected.where(col(id).isNotNull()).groupBy(col(id).as(KEY))
-                    .agg(count(lit(1)).as(COPIES)).where(col(COPIES).gt(1))).toJavaRDD()
+            repeated = Catalyst.rows(Setups.repeatedIds(selected)).toJavaRDD()
                     .map(row -> new Tuple2<>(row.getUTF8String(0).toString(), row.getLong(1)));
         }
         // The repeated ids, shuffled into one partition that every task reads.

@@ -15,7 +15,6 @@ import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.RowFactory;
 import org.apache.spark.sql.catalyst.InternalRow;
-import org.apache.spark.sql.types.DataTypes;
 import org.apache.spark.sql.types.StructType;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.engine.hydrogenic.HydrogenLikeModel;
@@ -171,37 +170,44 @@ final class Setups {
     private static final String KEY = "_ritzwerk_id";
 
     /**
-     * The documented columns present in a table (in documented order, so that Spark reads no
-     * other column) and the id check as a column: {@link #COPIES} holding, for a row whose id
-     * another row shares, the number of rows with that id. Spark counts the ids in jobs of their
-     * own before the plan's job (a read of the id column, a shuffle of the distinct ids, the
-     * repeated ones broadcast back), so this serves a table joined with another anyway (science
-     * spectra with their calibrations); the operations' own path hands the repeated ids to its tasks
-     * without a broadcast instead ({@link RepeatedIds}).
+     * The documented columns present in a table, in documented order (so that Spark reads no
+     * other column), each under its documented name whatever its case in the table.
      */
-    static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields) {
-        return checkedColumns(table, fields, true);
-    }
-
-    /**
-     * As {@link #checkedColumns(Dataset, Fields)}; without the check ({@code checkIds} false) the
-     * {@link #COPIES} column is null on every row and no id is counted (no extra read, no
-     * shuffle), for tables whose ids are unique by construction.
-     */
-    static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields, boolean checkIds) {
+    static Dataset<Row> documentedColumns(Dataset<Row> table, Fields fields) {
         String[] names = fields.present();
         String[] own = fields.presentColumns();
         Column[] columns = new Column[names.length];
         for (int k = 0; k < names.length; k++) {
-            // Under its documented name, whatever its case in the table.
             columns[k] = table.col(own[k]).as(names[k]);
         }
-        Dataset<Row> selected = table.select(columns);
-        if (!checkIds) {
-            return selected.withColumn(COPIES, lit(null).cast(DataTypes.LongType));
-        }
-        Dataset<Row> repeated = selected.groupBy(col(names[0]).as(KEY)).agg(count(lit(1)).as(COPIES))
+        return table.select(columns);
+    }
+
+    /**
+     * @param selected a table's {@link #documentedColumns}, its id first
+     * @return each id that more than one row holds (column {@code _ritzwerk_id}) with the number
+     *         of those rows (column {@link #COPIES}), counted by Spark's own aggregation of the id
+     *         column; a null id is not counted (the operations refuse each such row by itself);
+     *         lazy
+     */
+    static Dataset<Row> repeatedIds(Dataset<Row> selected) {
+        Column id = selected.col(selected.columns()[0]);
+        return selected.where(id.isNotNull()).groupBy(id.as(KEY)).agg(count(lit(1)).as(COPIES))
                 .where(col(COPIES).gt(1));
+    }
+
+    /**
+     * The {@link #documentedColumns} and the id check as a column: {@link #COPIES} holding, for a
+     * row whose id another row shares, the number of rows with that id, null otherwise. Spark
+     * counts the ids ({@link #repeatedIds}) in jobs of their own before the plan's job and
+     * broadcasts the repeated ones back, so this serves a table joined with another anyway (science
+     * spectra with their calibrations); the operations' own path hands the repeated ids to its
+     * tasks without a broadcast instead ({@link RepeatedIds}).
+     */
+    static Dataset<Row> checkedColumns(Dataset<Row> table, Fields fields) {
+        Dataset<Row> selected = documentedColumns(table, fields);
+        String[] names = selected.columns();
+        Dataset<Row> repeated = repeatedIds(selected);
         Column[] out = new Column[names.length + 1];
         for (int k = 0; k < names.length; k++) {
             out[k] = selected.col(names[k]);
@@ -260,12 +266,12 @@ final class Setups {
 
     /**
      * As {@link #run(Dataset, StructType, String, Object, InternalJob, StructType)}, with the id
-     * check on or off ({@link #checkedColumns(Dataset, Fields, boolean)}).
+     * check on or off ({@link RepeatedIds}; off, every id is taken as unique and none is counted).
      */
     static <P> Dataset<Row> run(Dataset<Row> table, StructType expected, String role, P parameters,
             InternalJob<P> job, StructType output, boolean checkIds) {
         requireBatch(table, role);
-        Dataset<Row> selected = checkedColumns(table, Fields.of(table.schema(), expected, role), false);
+        Dataset<Row> selected = documentedColumns(table, Fields.of(table.schema(), expected, role));
         Fields fields = Fields.of(selected.schema(), expected, role);
         // Broadcast as Java-serialised bytes: a session configured with Kryo would otherwise
         // serialise the parameter record with Kryo, which cannot make a record.
@@ -397,7 +403,7 @@ final class Setups {
         } catch (SparkRowException e) {
             return problemTable(table.sparkSession(), e);
         }
-        Dataset<Row> selected = checkedColumns(table, fields, false);
+        Dataset<Row> selected = documentedColumns(table, fields);
         Fields read = Fields.of(selected.schema(), expected, role);
         Broadcast<byte[]> shared = JavaSparkContext.fromSparkContext(table.sparkSession().sparkContext())
                 .broadcast(serialise(parameters));
@@ -406,8 +412,7 @@ final class Setups {
     }
 
     /**
-     * @param selected the documented columns ({@link #checkedColumns(Dataset, Fields, boolean)}
-     *                 without the check)
+     * @param selected the {@link #documentedColumns}
      * @param checkIds whether the tasks learn the repeated ids ({@link RepeatedIds}, in the same
      *                 job) or take every id as unique
      * @param task     each partition's work
