@@ -153,6 +153,13 @@ final class CalibrateCommand implements Callable<Integer> {
                     + "every wavelength within 0.1 pixel. Default: none (the report states the largest uncertainty).")
     Double requiredPrecision;
 
+    @Option(names = "--uncertainty-ceiling", paramLabel = "PIXELS", defaultValue = "1",
+            description = "Refuse (exit 2) a solution whose stated standard uncertainty exceeds PIXELS anywhere "
+                    + "between its first and last fitted line (two groups of lines with a long gap between them, an "
+                    + "end the polynomial was bent to); unlike --required-precision it does not ask the other lines"
+                    + " to check each end. Default: ${DEFAULT-VALUE}; 1e6 takes any solution as it is.")
+    double uncertaintyCeiling;
+
     @Option(names = "--unchecked-ends",
             description = "Accept a solution whose outermost line no other line checks (three lines for a straight"
                     + " line, four for a quadratic: a window of three lamp lines); a foreign line beside a missing"
@@ -253,7 +260,8 @@ final class CalibrateCommand implements Callable<Integer> {
             for (String option : new String[] {"--lamp", "--lines", "--medium", "--from", "--to", "--dispersion-range",
                 "--degree", "--max-degree", "--threshold", "--saturation", "--gain", "--read-noise", "--tolerance",
                 "--min-matched", "--min-strength",
-                "--no-second-order", "--required-precision", "--unchecked-ends", "--clip", "--plot", "--format",
+                "--no-second-order", "--required-precision", "--uncertainty-ceiling", "--unchecked-ends", "--clip",
+                "--plot", "--format",
                 "--data"}) {
                 rules.refuseUnless(option, false, "with --apply (the saved solution is applied as it is; "
                         + "--out is the only option --apply takes)");
@@ -282,6 +290,8 @@ final class CalibrateCommand implements Callable<Integer> {
             OptionRules.range("--required-precision", requiredPrecision, 0, false, 1e6,
                     "a standard uncertainty in pixels above 0 and at most 1e6 (e.g. 0.05)");
         }
+        OptionRules.range("--uncertainty-ceiling", uncertaintyCeiling, 0, false, 1e6,
+                "a standard uncertainty in pixels above 0 and at most 1e6 (e.g. 1)");
         if (saturation != null) {
             OptionRules.range("--saturation", saturation, 0, false, 1e15, "a number of counts above 0 and at most 1e15");
         }
@@ -309,7 +319,7 @@ final class CalibrateCommand implements Callable<Integer> {
     private Calibrator calibrator() {
         Calibrator calibrator = Calibrator.defaults().withThreshold(threshold).withTolerance(tolerance)
                 .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(!noSecondOrder)
-                .withUncheckedEndsAccepted(uncheckedEnds);
+                .withUncheckedEndsAccepted(uncheckedEnds).withUncertaintyCeiling(uncertaintyCeiling);
         calibrator = degree.equals("auto") ? calibrator.withAutomaticDegree(maxDegree)
                 : calibrator.withDegree(parseDegree());
         calibrator = requiredPrecision == null ? calibrator : calibrator.withRequiredPrecision(requiredPrecision);

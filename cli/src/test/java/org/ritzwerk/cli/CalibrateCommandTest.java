@@ -453,6 +453,19 @@ class CalibrateCommandTest {
         assertEquals(2, bad.code());
         assertTrue(bad.err().contains("--required-precision must be a standard uncertainty in pixels above 0"),
                 bad.err());
+
+        // The uncertainty ceiling (1 pixel by default) refuses on the stated uncertainty alone.
+        CliTest.Run capped = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--uncertainty-ceiling",
+                String.valueOf(largest / 2), "--out", out.toString());
+        assertEquals(2, capped.code(), capped.err());
+        assertTrue(capped.err().contains("raise the uncertainty ceiling"), capped.err());
+        assertFalse(Files.exists(out));
+        assertEquals(run.out(), CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I",
+                "--uncertainty-ceiling", "1e6").out());
+        CliTest.Run zero = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--uncertainty-ceiling", "0");
+        assertEquals(2, zero.code());
+        assertTrue(zero.err().contains("--uncertainty-ceiling must be a standard uncertainty in pixels above 0"),
+                zero.err());
     }
 
     @Test

@@ -55,6 +55,10 @@ import org.ritzwerk.medium.Medium;
  * @param readNoise         the detector's read noise in counts, at least 0 ({@code --read-noise};
  *                          {@code Calibrator.withReadNoise}), a floor under the measured noise; NaN
  *                          for none
+ * @param uncertaintyCeiling the largest stated standard uncertainty, pixels, a solution is returned
+ *                          with ({@code --uncertainty-ceiling}; {@code Calibrator.withUncertaintyCeiling}),
+ *                          above 0; 1 by default, infinity for none; a row above it is refused
+ *                          (failure code {@code calibrate.imprecise})
  *
  * <p>Serialisable only to travel from the driver to the executors of the same version, so the
  * serialised form is not part of the API.
@@ -65,7 +69,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
         String minStrength, double threshold, double tolerancePixels, double minMatched, double clip, int degree,
         int maxDegree, double saturation, double priorFromNm, double priorToNm, double minDispersion,
         double maxDispersion, boolean secondOrder, double requiredPrecision, double resolvingPower,
-        boolean uncheckedEnds, double gain, double readNoise) implements Serializable {
+        boolean uncheckedEnds, double gain, double readNoise, double uncertaintyCeiling) implements Serializable {
 
     private static final long serialVersionUID = 1L;
 
@@ -94,6 +98,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @param uncheckedEnds   as above
      * @param gain            as above
      * @param readNoise       as above
+     * @param uncertaintyCeiling as above
      */
     public CalibrationParameters {
         lamps = List.copyOf(lamps);
@@ -113,7 +118,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
             throw new IllegalArgumentException("priorFromNm and priorToNm must both be given or both be NaN");
         }
         calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
-                requiredPrecision, gain, readNoise);
+                requiredPrecision, gain, readNoise).withUncertaintyCeiling(uncertaintyCeiling);
         prior(priorFromNm, priorToNm, minDispersion, maxDispersion);
         if (!Double.isNaN(resolvingPower) && !(resolvingPower >= 1 && resolvingPower <= 1e7)) {
             throw new IllegalArgumentException("resolvingPower must be 1 to 1e7, or NaN for the default, got "
@@ -126,14 +131,14 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
      * @param lineSets data-set ids or line-list files
      * @return the {@code calibrate} command's defaults: air, every strength, threshold 5, tolerance
      *         3 pixels, 60 % matched, clipping at 3.5, automatic degree up to 5, no saturation, no prior,
-     *         second-order images considered, no required precision
+     *         second-order images considered, no required precision, an uncertainty ceiling of 1 pixel
      */
     public static CalibrationParameters of(List<String> lamps, List<String> lineSets) {
         return new CalibrationParameters(lamps, lineSets, List.of(), "air", null, PeakFinder.DEFAULT_THRESHOLD,
                 Calibrator.DEFAULT_TOLERANCE, Calibrator.DEFAULT_MIN_MATCHED, DispersionFit.DEFAULT_CLIP, 0,
                 Calibrator.DEFAULT_MAX_DEGREE, Double.NaN, Double.NaN, Double.NaN,
                 LampMatcher.Prior.none().minDispersion(), LampMatcher.Prior.none().maxDispersion(), true, Double.NaN,
-                Double.NaN, false, Double.NaN, Double.NaN);
+                Double.NaN, false, Double.NaN, Double.NaN, Calibrator.DEFAULT_UNCERTAINTY_CEILING);
     }
 
     /**
@@ -144,7 +149,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
         return new CalibrationParameters(lamps, lineSets, dataFiles, mediumSpec, minStrength, threshold,
                 tolerancePixels, minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm,
                 minDispersion, maxDispersion, secondOrder, requiredPrecision, resolvingPower, uncheckedEnds,
-                gain, readNoise);
+                gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -154,7 +159,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withDataFiles(List<String> files) {
         return new CalibrationParameters(lamps, lineSets, files, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -165,7 +170,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withDegree(int fixed, int highest) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, fixed, highest, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -175,7 +180,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withSaturation(double counts) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, counts, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -188,7 +193,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withPrior(double fromNm, double toNm, double minNmPerPixel, double maxNmPerPixel) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, fromNm, toNm, minNmPerPixel, maxNmPerPixel,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -198,7 +203,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withSecondOrder(boolean considered) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                considered, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise);
+                considered, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -210,7 +215,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withRequiredPrecision(double pixels) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, pixels, resolvingPower, uncheckedEnds, gain, readNoise);
+                secondOrder, pixels, resolvingPower, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -220,7 +225,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withResolvingPower(double r) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, r, uncheckedEnds, gain, readNoise);
+                secondOrder, requiredPrecision, r, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -231,7 +236,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withUncheckedEnds(boolean accepted) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, accepted, gain, readNoise);
+                secondOrder, requiredPrecision, resolvingPower, accepted, gain, readNoise, uncertaintyCeiling);
     }
 
     /**
@@ -243,13 +248,27 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     public CalibrationParameters withDetector(double countsPerElectron, double counts) {
         return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
                 minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
-                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, countsPerElectron, counts);
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, countsPerElectron, counts,
+                uncertaintyCeiling);
+    }
+
+    /**
+     * @param pixels the largest stated standard uncertainty between the first and last fitted line a
+     *               solution is returned with, above 0 (infinity for none; 1 by default); see
+     *               {@code Calibrator.withUncertaintyCeiling}
+     * @return a copy
+     */
+    public CalibrationParameters withUncertaintyCeiling(double pixels) {
+        return new CalibrationParameters(lamps, lineSets, dataFiles, medium, minStrength, threshold, tolerancePixels,
+                minMatched, clip, degree, maxDegree, saturation, priorFromNm, priorToNm, minDispersion, maxDispersion,
+                secondOrder, requiredPrecision, resolvingPower, uncheckedEnds, gain, readNoise, pixels);
     }
 
     /** @return the calibrator these settings describe (as the command configures it) */
     Calibrator calibrator() {
         return calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
-                requiredPrecision, gain, readNoise).withUncheckedEndsAccepted(uncheckedEnds);
+                requiredPrecision, gain, readNoise).withUncheckedEndsAccepted(uncheckedEnds)
+                .withUncertaintyCeiling(uncertaintyCeiling);
     }
 
     private static Calibrator calibrator(double threshold, double tolerancePixels, double minMatched, double clip,

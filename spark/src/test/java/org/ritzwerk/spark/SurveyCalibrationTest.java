@@ -340,6 +340,17 @@ class SurveyCalibrationTest {
         assertArrayEquals(s.polynomial().coefficients(), doubles(row.getList(6)));
         org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
                 () -> CalibrationParameters.of(List.of("Ne I"), List.of()).withRequiredPrecision(-1));
+
+        // The uncertainty ceiling refuses in the row as the library does.
+        Row cappedRow = SurveyCalibration.of(loose.withUncertaintyCeiling(stated / 2)).calibrate(table)
+                .collectAsList().get(0);
+        CalibrationException capped = org.junit.jupiter.api.Assertions.assertThrows(CalibrationException.class,
+                () -> Calibrator.defaults().withSecondOrder(false).withRequiredPrecision(stated * 2)
+                        .withUncertaintyCeiling(stated / 2).calibrate(problem));
+        assertEquals(CalibrationException.IMPRECISE, cappedRow.getAs("failure_code"));
+        assertEquals(capped.getMessage(), cappedRow.getAs("failure"));
+        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                () -> CalibrationParameters.of(List.of("Ne I"), List.of()).withUncertaintyCeiling(0));
     }
 
     /**

@@ -31,6 +31,16 @@ public final class Calibrator {
 
     /** Default pairing tolerance, pixels. */
     public static final double DEFAULT_TOLERANCE = 3;
+    /**
+     * Default ceiling on a solution's stated standard uncertainty, pixels, anywhere between its
+     * first and last fitted line ({@link #withUncertaintyCeiling}). A solution stating more is
+     * refused by default: a scale that may be a pixel or more off between its lines (two groups of
+     * lines with a long gap between them, a polynomial bent to an end line a second-order image
+     * or a foreign line may have taken) is more often wrong than useful. In seeded lamp sweeps the
+     * runs accepted more than a pixel off stated 7 and 27 pixels, and the ceiling refuses 1 of the
+     * 47 runs of seeds 1 to 400 accepted 0.1 to 1 pixel off.
+     */
+    public static final double DEFAULT_UNCERTAINTY_CEILING = 1;
     /** Default fraction of the strongest peaks that a solution must pair. */
     public static final double DEFAULT_MIN_MATCHED = 0.6;
     /**
@@ -64,10 +74,12 @@ public final class Calibrator {
     /** The detector's gain in counts per photo-electron and read noise in counts, NaN when not given. */
     private final double gain;
     private final double readNoise;
+    /** The largest stated standard uncertainty, pixels, a solution is returned with (infinite: none). */
+    private final double ceiling;
 
     private Calibrator(double threshold, double saturation, boolean negativeCountsAllowed, double tolerance,
             double minMatched, double clip, int degree, int maxDegree, double maxChi2, boolean secondOrder,
-            double requiredPrecision, boolean uncheckedEnds, double gain, double readNoise) {
+            double requiredPrecision, boolean uncheckedEnds, double gain, double readNoise, double ceiling) {
         this.threshold = threshold;
         this.saturation = saturation;
         this.negativeCountsAllowed = negativeCountsAllowed;
@@ -82,6 +94,7 @@ public final class Calibrator {
         this.uncheckedEnds = uncheckedEnds;
         this.gain = gain;
         this.readNoise = readNoise;
+        this.ceiling = ceiling;
     }
 
     /**
@@ -95,7 +108,7 @@ public final class Calibrator {
     public static Calibrator defaults() {
         return new Calibrator(PeakFinder.DEFAULT_THRESHOLD, Double.NaN, true, DEFAULT_TOLERANCE, DEFAULT_MIN_MATCHED,
                 DispersionFit.DEFAULT_CLIP, -1, DEFAULT_MAX_DEGREE, DEFAULT_MAX_REDUCED_CHI_SQUARE, true,
-                Double.POSITIVE_INFINITY, false, Double.NaN, Double.NaN);
+                Double.POSITIVE_INFINITY, false, Double.NaN, Double.NaN, DEFAULT_UNCERTAINTY_CEILING);
     }
 
     /**
@@ -105,7 +118,7 @@ public final class Calibrator {
     public Calibrator withThreshold(double snr) {
         PeakFinder.defaults().withThreshold(snr); // validates
         return new Calibrator(snr, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -116,7 +129,7 @@ public final class Calibrator {
     public Calibrator withSaturationLevel(double counts) {
         PeakFinder.defaults().withSaturationLevel(counts); // validates
         return new Calibrator(threshold, counts, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -125,7 +138,7 @@ public final class Calibrator {
      */
     public Calibrator withNegativeCountsAllowed(boolean allowed) {
         return new Calibrator(threshold, saturation, allowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -135,7 +148,7 @@ public final class Calibrator {
     public Calibrator withTolerance(double pixels) {
         LampMatcher.defaults().withTolerance(pixels); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, pixels, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -146,7 +159,7 @@ public final class Calibrator {
     public Calibrator withMinMatchedFraction(double fraction) {
         LampMatcher.defaults().withMinInlierFraction(fraction); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, fraction, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -156,7 +169,7 @@ public final class Calibrator {
     public Calibrator withClipping(double k) {
         DispersionFit.automatic(1).withClipping(k, DispersionFit.DEFAULT_CLIP_ITERATIONS); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, k, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -166,7 +179,7 @@ public final class Calibrator {
     public Calibrator withDegree(int fixedDegree) {
         DispersionFit.ofDegree(fixedDegree); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, fixedDegree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -176,7 +189,7 @@ public final class Calibrator {
     public Calibrator withAutomaticDegree(int highest) {
         DispersionFit.automatic(highest); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, -1, highest,
-                maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -191,7 +204,7 @@ public final class Calibrator {
                     + limit);
         }
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, limit, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, limit, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -202,7 +215,7 @@ public final class Calibrator {
      */
     public Calibrator withSecondOrder(boolean considered) {
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, considered, requiredPrecision, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, considered, requiredPrecision, uncheckedEnds, gain, readNoise, ceiling);
     }
 
     /**
@@ -222,7 +235,33 @@ public final class Calibrator {
                     + pixels);
         }
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, pixels, uncheckedEnds, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, pixels, uncheckedEnds, gain, readNoise, ceiling);
+    }
+
+    /**
+     * A ceiling on the stated standard uncertainty (pixels) anywhere between the first and last
+     * fitted line ({@link Calibration#largestSigmaPixels()}): a solution stating more is refused
+     * ({@link CalibrationException#IMPRECISE}, saying where and what would help) instead of being
+     * returned. {@value #DEFAULT_UNCERTAINTY_CEILING} pixel by default; infinity returns every
+     * solution with whatever uncertainty it states. Unlike {@link #withRequiredPrecision} it does not
+     * ask the other lines to check each end line.
+     *
+     * @param pixels the ceiling in pixels, positive (infinity for none)
+     * @return a solver with that ceiling
+     * @throws IllegalArgumentException naming the ceiling when it is not positive
+     */
+    public Calibrator withUncertaintyCeiling(double pixels) {
+        if (!(pixels > 0)) {
+            throw new IllegalArgumentException("the uncertainty ceiling must be a positive number of pixels (or"
+                    + " infinity for none), got " + pixels);
+        }
+        return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, readNoise, pixels);
+    }
+
+    /** @return the ceiling on the stated standard uncertainty, pixels; infinite when there is none */
+    public double uncertaintyCeiling() {
+        return ceiling;
     }
 
     /** @return the largest accepted stated standard uncertainty in pixels; infinite when none is required */
@@ -246,7 +285,7 @@ public final class Calibrator {
      */
     public Calibrator withUncheckedEndsAccepted(boolean accepted) {
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, accepted, gain, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, accepted, gain, readNoise, ceiling);
     }
 
     /**
@@ -261,7 +300,8 @@ public final class Calibrator {
     public Calibrator withGain(double countsPerElectron) {
         PeakFinder.defaults().withGain(countsPerElectron); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, countsPerElectron, readNoise);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, countsPerElectron, readNoise,
+                ceiling);
     }
 
     /**
@@ -275,7 +315,7 @@ public final class Calibrator {
     public Calibrator withReadNoise(double counts) {
         PeakFinder.defaults().withReadNoise(counts); // validates
         return new Calibrator(threshold, saturation, negativeCountsAllowed, tolerance, minMatched, clip, degree,
-                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, counts);
+                maxDegree, maxChi2, secondOrder, requiredPrecision, uncheckedEnds, gain, counts, ceiling);
     }
 
     /** @return the detector's gain given in counts per photo-electron, NaN when none was given */
@@ -501,10 +541,22 @@ public final class Calibrator {
 
     /** Refuses a solution less precise than required, saying where and what would help. */
     private void checkPrecision(Calibration calibration) {
+        double sigma = calibration.largestSigmaPixels();
+        if (sigma > ceiling) {
+            double at = calibration.largestSigmaAtPixel();
+            DispersionSolution solution = calibration.solution();
+            throw new CalibrationException(CalibrationException.IMPRECISE, String.format(Locale.ROOT,
+                    "%s: the solution (degree %d, %d lines from pixel %.1f to %.1f) states a standard uncertainty of"
+                            + " %.4g pixels (%.3g nm) near pixel %.1f, above the %.4g pixel%s a solution is accepted"
+                            + " with, so its scale may be a pixel or more off there; %s. To take it as it is, raise"
+                            + " the uncertainty ceiling",
+                    calibration.problem().source(), solution.degree(), solution.usedCount(),
+                    calibration.lowestUsedPixel(), calibration.highestUsedPixel(), sigma,
+                    solution.wavelengthSigmaAt(at), at, ceiling, ceiling == 1 ? "" : "s", tighten(calibration, at)));
+        }
         if (Double.isInfinite(requiredPrecision)) {
             return;
         }
-        double sigma = calibration.largestSigmaPixels();
         if (Double.isNaN(sigma)) {
             throw new CalibrationException(CalibrationException.IMPRECISE, calibration.problem().source()
                     + ": the solution states no uncertainty (no covariance), so it cannot meet the required "
@@ -713,7 +765,8 @@ public final class Calibrator {
         return "Calibrator[threshold=" + threshold + ", saturation=" + saturation + ", tolerance=" + tolerance
                 + " px, minMatched=" + minMatched + ", clip=" + clip + ", degree="
                 + (degree > 0 ? Integer.toString(degree) : "auto<=" + maxDegree) + ", maxReducedChiSquare=" + maxChi2
-                + ", secondOrder=" + secondOrder + ", requiredPrecision=" + requiredPrecision + " px, uncheckedEnds="
+                + ", secondOrder=" + secondOrder + ", requiredPrecision=" + requiredPrecision
+                + " px, uncertaintyCeiling=" + ceiling + " px, uncheckedEnds="
                 + uncheckedEnds + "]";
     }
 }

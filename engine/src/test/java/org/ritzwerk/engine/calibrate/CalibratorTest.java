@@ -424,5 +424,17 @@ class CalibratorTest {
         for (double bad : new double[] {0, -0.1, Double.NaN, Double.POSITIVE_INFINITY}) {
             assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withRequiredPrecision(bad));
         }
+
+        // The uncertainty ceiling (1 pixel by default) refuses on the stated uncertainty alone.
+        assertEquals(1.0, Calibrator.defaults().uncertaintyCeiling());
+        CalibrationException ceiling = assertThrows(CalibrationException.class,
+                () -> Calibrator.defaults().withUncertaintyCeiling(largest / 2).calibrate(problem));
+        assertEquals(CalibrationException.IMPRECISE, ceiling.code());
+        assertTrue(ceiling.getMessage().contains("raise the uncertainty ceiling"), ceiling.getMessage());
+        Calibration none = Calibrator.defaults().withUncertaintyCeiling(Double.POSITIVE_INFINITY).calibrate(problem);
+        assertArrayEquals(s.scaledCoefficients(), none.solution().scaledCoefficients(), 0.0);
+        for (double bad : new double[] {0, -1, Double.NaN}) {
+            assertThrows(IllegalArgumentException.class, () -> Calibrator.defaults().withUncertaintyCeiling(bad));
+        }
     }
 }

@@ -302,7 +302,9 @@ class CalibrationSweepTest {
      * refused, 2 imprecise, none wrong. With the automatic degree up to 5 (328, 25, 47 and 0
      * without the requirement): 178, 220, 2 and 0; with the next degree's Akaike weight between
      * the lines (DispersionSolution.nextDegreeWeight): 156, 244, 0 and 0, all 47 imprecise runs
-     * stating at least 0.05 pixel (median 0.15). CalibrationSweep's main prints these counts.
+     * stating at least 0.05 pixel (median 0.15). The uncertainty ceiling of 1 pixel then refused one
+     * of the 47 (seed 275, stating 1.01 pixel): 328, 26, 46 and 0 without the requirement, the same
+     * counts with it. CalibrationSweep's main prints these counts.
      */
     @Test
     void aRequiredPrecisionRefusesWhatTheDataCannotGive() {
