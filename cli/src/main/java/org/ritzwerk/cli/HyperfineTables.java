@@ -155,8 +155,9 @@ final class HyperfineTables {
     static String ladderUncertaintyNote(DataContext context, AlkaliAtom atom, State[] states) {
         StringBuilder note = new StringBuilder("note: u Hz: each step's own standard uncertainty: its centroid's (the "
                 + "plain --ladder's u Hz; '-', null in JSON, where that has none) and its two F levels' shifts' from "
-                + "the stated uncertainties of A and B, as independent (no source states a covariance); components sharing a level share its A and B errors, "
-                + "so their offsets from each other are known better (README, Rydberg states of alkali atoms)");
+                + "the stated uncertainties of A and B, as independent (no source states a covariance); components "
+                + "sharing a level share its A and B errors, so their offsets from each other are known better "
+                + "(README, Rydberg states of alkali atoms)");
         Species species = atom.species();
         for (State state : states) {
             if (context.alkaliHyperfine().constants(species, state).isPresent()) {
