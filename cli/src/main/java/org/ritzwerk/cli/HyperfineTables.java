@@ -55,8 +55,11 @@ final class HyperfineTables {
         if (zeeman) {
             columns.add(Table.Column.text("polarisation", "pol"));
         }
+        columns.add(Table.Column.number("frequency_hz", "Hz", "%.12e"));
+        if (!zeeman) {
+            columns.add(Table.Column.number("uncertainty_hz", "u Hz", "%.2g"));
+        }
         columns.addAll(List.of(
-                Table.Column.number("frequency_hz", "Hz", "%.12e"),
                 Table.Column.number("offset_mhz", "MHz from centroid", "%.4f"),
                 Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.7f")));
         if (air) {
@@ -89,7 +92,9 @@ final class HyperfineTables {
                         List<Object> row = new java.util.ArrayList<>(List.of(species.notation(), d.line(),
                                 ground.notation() + " F=" + half(c.twoFLower()),
                                 upper.notation() + " F'=" + half(c.twoFUpper())));
-                        addPosition(row, c.frequencyHertz(), centroid, air);
+                        row.add(c.frequencyHertz());
+                        row.add(c.frequencyUncertaintyHertz());
+                        addOffsetAndWavelengths(row, c.frequencyHertz(), centroid, air);
                         row.add(c.relativeStrength());
                         table.add(row.toArray());
                     }
@@ -122,10 +127,12 @@ final class HyperfineTables {
                 Table.Column.text("intermediate_f", "F'"),
                 Table.Column.text("upper_f", "F''"),
                 Table.Column.number("first_frequency_hz", "step 1 Hz", "%.12e"),
+                Table.Column.number("first_uncertainty_hz", "u Hz", "%.2g"),
                 Table.Column.number("first_offset_mhz", "MHz from centroid", "%.4f"),
                 Table.Column.number("first_vacuum_wavelength_nm", "vacuum nm", "%.7f"),
                 Table.Column.number("first_air_wavelength_nm", "air nm", "%.7f"),
                 Table.Column.number("second_frequency_hz", "step 2 Hz", "%.12e"),
+                Table.Column.number("second_uncertainty_hz", "u Hz", "%.2g"),
                 Table.Column.number("second_offset_mhz", "MHz from centroid", "%.4f"),
                 Table.Column.number("second_vacuum_wavelength_nm", "vacuum nm", "%.7f"),
                 Table.Column.number("second_air_wavelength_nm", "air nm", "%.7f")), out, format);
@@ -134,11 +141,51 @@ final class HyperfineTables {
             double secondVacuum = PhysicalConstants.C / p.secondHertz();
             table.add(atom.species().notation(), states[0].notation(), states[1].notation(), states[2].notation(),
                     half(p.twoFLower()), half(p.twoFIntermediate()), half(p.twoFUpper()),
-                    p.firstHertz(), (p.firstHertz() - first) / 1e6, firstVacuum * 1e9,
-                    AlkaliTables.air(firstVacuum) * 1e9, p.secondHertz(), (p.secondHertz() - second) / 1e6,
-                    secondVacuum * 1e9, AlkaliTables.air(secondVacuum) * 1e9);
+                    p.firstHertz(), p.firstUncertaintyHertz(), (p.firstHertz() - first) / 1e6, firstVacuum * 1e9,
+                    AlkaliTables.air(firstVacuum) * 1e9, p.secondHertz(), p.secondUncertaintyHertz(),
+                    (p.secondHertz() - second) / 1e6, secondVacuum * 1e9, AlkaliTables.air(secondVacuum) * 1e9);
         }
         table.finish();
+    }
+
+    /**
+     * The note saying what a hyperfine ladder's {@code u Hz} holds, and for each level whose constants are a
+     * Rydberg series' (scaled as n*^-3, or measured there without a B) what it leaves out.
+     */
+    static String ladderUncertaintyNote(DataContext context, AlkaliAtom atom, State[] states) {
+        StringBuilder note = new StringBuilder("note: u Hz: each step's own standard uncertainty: its centroid's (the "
+                + "plain --ladder's u Hz; '-', null in JSON, where that has none) and its two F levels' shifts' from "
+                + "the stated uncertainties of A and B, as independent (no source states a covariance); components "
+                + "sharing a level share its A and B errors, so their offsets from each other are known better "
+                + "(README, Rydberg states of alkali atoms)");
+        Species species = atom.species();
+        for (State state : states) {
+            if (context.alkaliHyperfine().constants(species, state).isPresent()) {
+                continue;
+            }
+            String origin = context.hyperfineConstantsOrigin(species, state).orElse("");
+            var c = context.hyperfineConstants(species, state).orElseThrow();
+            boolean noB = state.twoJ() > 1 && Double.isNaN(c.bUncertaintyHertz());
+            boolean measured = origin.equals("measured");
+            if (measured && !noB) {
+                continue; // a Rydberg series' own measured level with A and B: nothing left out
+            }
+            note.append(String.format(java.util.Locale.ROOT, "; %s (A = %.6g MHz, %s)", state.notation(),
+                    c.aHertz() / 1e6, origin));
+            if (!measured) {
+                note.append(": only the stated uncertainty of its series' constant enters, scaled like A; the n*^-3 "
+                        + "scaling's own error (a few per cent of A along a series, as the checks in "
+                        + "rydberg-hyperfine.csv say) is not included");
+                if (origin.contains("isotope ratio")) {
+                    note.append(", nor the isotope ratio's hyperfine anomaly");
+                }
+            }
+            if (noB) {
+                note.append(measured ? ": " : "; ").append("no B is given for it: the quadrupole term and its "
+                        + "uncertainty are left out");
+            }
+        }
+        return note.toString();
     }
 
     /**
@@ -188,8 +235,12 @@ final class HyperfineTables {
     }
 
     private static void addPosition(List<Object> row, double hertz, double centroidHertz, boolean air) {
-        double vacuumMetres = PhysicalConstants.C / hertz;
         row.add(hertz);
+        addOffsetAndWavelengths(row, hertz, centroidHertz, air);
+    }
+
+    private static void addOffsetAndWavelengths(List<Object> row, double hertz, double centroidHertz, boolean air) {
+        double vacuumMetres = PhysicalConstants.C / hertz;
         row.add((hertz - centroidHertz) / 1e6);
         row.add(vacuumMetres * 1e9);
         if (air) {

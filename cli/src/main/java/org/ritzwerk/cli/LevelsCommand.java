@@ -180,7 +180,8 @@ final class LevelsCommand implements Callable<Integer> {
             sources = sources.withHydrogenLike(ion.species(), ion.model());
         }
         for (AlkaliAtom atom : atoms.alkalis()) {
-            sources = sources.withAlkali(atom, DataLevels.hyperfine(data.context(), atom.species()));
+            sources = sources.withAlkali(atom, DataLevels.hyperfine(data.context(), atom.species()),
+                    DataLevels.hyperfineModel(data.context(), atom.species()));
         }
         for (RitzLevels set : levelSets.levels()) {
             sources = sources.withLevels(set);

@@ -294,6 +294,7 @@ final class LinesCommand implements Callable<Integer> {
         State[] states = AlkaliTables.ladder(ladder);
         AlkaliTables.checkRange("--ladder", atom, states);
         HyperfineTables.ladder(data.context(), atom, states, spec.commandLine().getOut(), format);
+        spec.commandLine().getErr().println(HyperfineTables.ladderUncertaintyNote(data.context(), atom, states));
         AlkaliTables.edgeNote(atom, spec.commandLine().getErr(), states);
         AlkaliTables.sourcesNote(atom, spec.commandLine().getErr(), states);
         spec.commandLine().getErr().println(HyperfineTables.sourcesNote(data.context(), atom) + "; a Rydberg "

@@ -13,7 +13,8 @@ class HyperfineCommandTest {
         CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--format", "csv");
         assertEquals(0, run.code(), run.err());
         String[] rows = run.out().strip().split("\n");
-        assertEquals("species,line,lower,upper,frequency_hz,offset_mhz,vacuum_wavelength_nm,relative_strength", rows[0]);
+        assertEquals("species,line,lower,upper,frequency_hz,uncertainty_hz,offset_mhz,vacuum_wavelength_nm,"
+                + "relative_strength", rows[0]);
         assertEquals(1 + 4 + 6, rows.length, run.out());
         double d1 = 0;
         double d2 = 0;
@@ -37,6 +38,11 @@ class HyperfineCommandTest {
         // data file, by hand); the usual cooling-laser reference (common practice)
         assertTrue(cooling != null, run.out());
         assertEquals(384228115.2e6, Double.parseDouble(cooling.split(",")[4]), 0.1e6, cooling);
+        // its standard uncertainty: the D2 centroid's 6.2 kHz with the 5p3/2 F' = 3 shift's from u_A = 2.0 kHz and
+        // u_B = 3.7 kHz (Ye et al. 1996, from memory), 9/4 u_A and 1/4 u_B, by hand: 7.7 kHz (HyperfineUncertaintyTest
+        // checks every component against an independent propagation)
+        assertEquals(Math.sqrt(6200.0 * 6200 + 4500.0 * 4500 + 925.0 * 925), Double.parseDouble(cooling.split(",")[5]),
+                1, cooling);
     }
 
     /**
@@ -51,14 +57,25 @@ class HyperfineCommandTest {
         assertEquals(0, run.code(), run.err());
         String[] rows = run.out().strip().split("\n");
         assertEquals("species,lower,intermediate,upper,lower_f,intermediate_f,upper_f,first_frequency_hz,"
-                + "first_offset_mhz,first_vacuum_wavelength_nm,first_air_wavelength_nm,second_frequency_hz,"
-                + "second_offset_mhz,second_vacuum_wavelength_nm,second_air_wavelength_nm",
+                + "first_uncertainty_hz,first_offset_mhz,first_vacuum_wavelength_nm,first_air_wavelength_nm,"
+                + "second_frequency_hz,second_uncertainty_hz,second_offset_mhz,second_vacuum_wavelength_nm,"
+                + "second_air_wavelength_nm",
                 rows[0].replace("\"", "")); // the CSV writer quotes names of more than 24 characters
         assertEquals(11, rows.length, run.out());
         String lock = java.util.Arrays.stream(rows).filter(r -> r.replace("\"", "")
                 .startsWith("Rb-87 I,5s 2S1/2,5p 2P3/2,60s 2S1/2,2,3,2,")).findFirst().orElseThrow();
-        assertEquals(-2369.2652, Double.parseDouble(lock.split(",")[8]), 1e-4, lock);
+        assertEquals(-2369.2652, Double.parseDouble(lock.split(",")[9]), 1e-4, lock);
         assertTrue(run.err().contains("a Rydberg level's A and B are scaled with n*"), run.err());
+        // each step's standard uncertainty (HyperfineUncertaintyTest checks them against an independent propagation):
+        // step 1 the D2 centroid's 6.2 kHz with the 5p3/2 F' = 3 shift's (7.7 kHz, by hand); step 2 about 0.30 MHz,
+        // mostly the 60s level's (AlkaliUncertaintyTest)
+        String[] lockFields = lock.split(",");
+        assertEquals(7716.58, Double.parseDouble(lockFields[8]), 0.01, lock);
+        assertEquals(3.0e5, Double.parseDouble(lockFields[13]), 0.05e5, lock);
+        // what the scaled 60s constant's part leaves out is said
+        assertTrue(run.err().contains("60s 2S1/2 (A = 0.0997011 MHz, scaled as n*^-3 from 7s 2S1/2): only the "
+                + "stated uncertainty of its series' constant enters, scaled like A; the n*^-3 scaling's own error"),
+                run.err());
         // JSON: the ladder's states on every row, and each step in standard air too, by the same air model as
         // the plain --ladder (Medium.air(), the standard air of the api), so the refusal of --medium air stays true
         CliTest.Run json = CliTest.run("lines", "--species", "Rb-87 I", "--ladder", "5s1/2,5p3/2,50d5/2",
@@ -89,6 +106,29 @@ class HyperfineCommandTest {
         CliTest.Run na = CliTest.run("lines", "--species", "Na-23 I", "--ladder", "3s1/2,3p3/2,30d5/2", "--hyperfine");
         assertEquals(2, na.code(), na.err());
         assertTrue(na.err().contains("--ladder with --hyperfine: no hyperfine constants for Na-23 I 30d5/2"), na.err());
+    }
+
+    /** {@code levels --hyperfine}: each F level's model says whether its A and B are measured or scaled. */
+    @Test
+    void levelsSayWhetherTheirConstantsAreMeasuredOrScaled() {
+        CliTest.Run run = CliTest.run("levels", "--species", "Rb-87 I", "--hyperfine", "--n-max", "8", "--l-max", "0",
+                "--format", "csv");
+        assertEquals(0, run.code(), run.err());
+        int measured = 0;
+        int scaled = 0;
+        for (String quoted : run.out().strip().split("\n")) {
+            String row = quoted.replace("\"", "");
+            String level = row.split(",")[1];
+            if (level.equals("5s 2S1/2") || level.equals("7s 2S1/2")) { // 7s: the level the nS row was measured at
+                assertTrue(row.endsWith("measured, hyperfine A, B measured"), row);
+                measured++;
+            } else if (level.equals("8s 2S1/2")) {
+                assertTrue(row.endsWith("measured, hyperfine A, B scaled as n*^-3 from 7s 2S1/2"), row);
+                scaled++;
+            }
+        }
+        assertEquals(4, measured, run.out());
+        assertEquals(2, scaled, run.out());
     }
 
     @Test

@@ -13,6 +13,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.ritzwerk.atom.Nucleus;
@@ -28,6 +29,7 @@ import org.ritzwerk.engine.hyperfine.HyperfineStructure;
 import org.ritzwerk.engine.hyperfine.ZeemanComponent;
 import org.ritzwerk.engine.hyperfine.ZeemanStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
+import org.ritzwerk.engine.rydberg.LadderExcitation;
 import org.ritzwerk.refdata.internal.BuiltInCsv;
 import org.ritzwerk.refdata.internal.RydbergData;
 
@@ -194,18 +196,17 @@ public final class AlkaliHyperfine {
                 Species species = Species.parse(row.f()[0]);
                 State state = state(row.f()[1]);
                 double a = Double.parseDouble(row.f()[2]);
-                Double.parseDouble(row.f()[3]);
+                double aUnc = uncertainty(row.f()[3], "a-uncertainty");
                 boolean hasB = !row.f()[4].isEmpty();
                 if (hasB != (state.twoJ() > 1)) {
                     throw new IllegalArgumentException("B is given exactly for J > 1/2");
                 }
                 double b = hasB ? Double.parseDouble(row.f()[4]) : 0;
-                if (hasB) {
-                    Double.parseDouble(row.f()[5]);
-                }
+                double bUnc = hasB ? uncertainty(row.f()[5], "b-uncertainty") : Double.NaN;
                 Provenance.Kind kind = Provenance.Kind.fromId(row.f()[6]);
                 LevelConstants c = new LevelConstants(species, state, row.f()[2], row.f()[3], row.f()[4], row.f()[5],
-                        HyperfineConstants.ofMegahertz(a, b, row.f()[7] + " (" + kind.id() + ")"), kind, row.f()[7], row.f()[8]);
+                        HyperfineConstants.ofMegahertz(a, aUnc, b, bUnc, row.f()[7] + " (" + kind.id() + ")"), kind,
+                        row.f()[7], row.f()[8]);
                 if (hfs.computeIfAbsent(species, k -> new LinkedHashMap<>()).put(state, c) != null) {
                     throw new IllegalArgumentException("second row for " + species.notation() + " " + row.f()[1]);
                 }
@@ -218,6 +219,15 @@ public final class AlkaliHyperfine {
         Map<Species, Map<State, LevelConstants>> frozenHfs = new LinkedHashMap<>();
         hfs.forEach((k, v) -> frozenHfs.put(k, Collections.unmodifiableMap(new LinkedHashMap<>(v))));
         return new AlkaliHyperfine(Collections.unmodifiableMap(frozen), Collections.unmodifiableMap(frozenHfs));
+    }
+
+    /** A stated standard uncertainty: a number, not negative. */
+    private static double uncertainty(String text, String column) {
+        double u = Double.parseDouble(text);
+        if (!(u >= 0 && u < Double.POSITIVE_INFINITY)) {
+            throw new IllegalArgumentException(column + " must be a finite number, not negative, got '" + text + "'");
+        }
+        return u;
     }
 
     private static BigDecimal toMegahertz(BigDecimal value, String unit) {
@@ -363,12 +373,16 @@ public final class AlkaliHyperfine {
      * @param species an isotope with constants for both levels
      * @param lower   the lower level, e.g. 5s 2S1/2
      * @param upper   the upper level, e.g. 5p 2P3/2
-     * @return the components with frequencies (Hz) and shares of the line strength
+     * @return the components with frequencies (Hz), their standard uncertainties (Hz; each component's own:
+     *         the centroid's, {@link AlkaliAtom#frequencyUncertaintyHz}, and the two F levels' shifts' from the
+     *         stated uncertainties of A and B, in quadrature, {@link HyperfineStructure#components}; NaN when the
+     *         centroid has none) and shares of the line strength
      * @throws ReferenceDataException when either level has no hyperfine constants here
      */
     public List<HyperfineComponent> components(DataContext context, Species species, State lower, State upper) {
         Pair p = pair(context, species, lower, upper);
-        return HyperfineStructure.components(p.twoI, lower.twoJ(), p.lower, upper.twoJ(), p.upper, p.centroid);
+        return HyperfineStructure.components(p.twoI, lower.twoJ(), p.lower, upper.twoJ(), p.upper, p.centroid,
+                p.centroidUncertainty);
     }
 
     /**
@@ -427,14 +441,46 @@ public final class AlkaliHyperfine {
     /**
      * One F-resolved path of a two-step (ladder) excitation, F -> F' -> F''.
      *
-     * @param twoFLower        2 F of the lower level
-     * @param twoFIntermediate 2 F' of the intermediate level
-     * @param twoFUpper        2 F'' of the upper level
-     * @param firstHertz       the first step's frequency, F -> F', Hz
-     * @param secondHertz      the second step's frequency, F' -> F'', Hz
+     * <p>NaN policy: an uncertainty is NaN when not estimated (a step's centroid has none: a level of the step
+     * has no stated energy uncertainty).
+     *
+     * @param twoFLower              2 F of the lower level
+     * @param twoFIntermediate       2 F' of the intermediate level
+     * @param twoFUpper              2 F'' of the upper level
+     * @param firstHertz             the first step's frequency, F -> F', Hz
+     * @param secondHertz            the second step's frequency, F' -> F'', Hz
+     * @param firstUncertaintyHertz  the first step's frequency's standard uncertainty on its own, Hz, or NaN
+     *                               (see {@link #ladderComponents})
+     * @param secondUncertaintyHertz the second step's, Hz, or NaN
      */
     public record LadderComponent(int twoFLower, int twoFIntermediate, int twoFUpper, double firstHertz,
-            double secondHertz) {
+            double secondHertz, double firstUncertaintyHertz, double secondUncertaintyHertz) {
+
+        /**
+         * A path without uncertainties.
+         *
+         * @param twoFLower        2 F of the lower level
+         * @param twoFIntermediate 2 F' of the intermediate level
+         * @param twoFUpper        2 F'' of the upper level
+         * @param firstHertz       the first step's frequency, F -> F', Hz
+         * @param secondHertz      the second step's frequency, F' -> F'', Hz
+         */
+        public LadderComponent(int twoFLower, int twoFIntermediate, int twoFUpper, double firstHertz,
+                double secondHertz) {
+            this(twoFLower, twoFIntermediate, twoFUpper, firstHertz, secondHertz, Double.NaN, Double.NaN);
+        }
+
+        /** @return the first step's frequency uncertainty, Hz, or empty when not estimated */
+        public OptionalDouble firstUncertainty() {
+            return Double.isNaN(firstUncertaintyHertz) ? OptionalDouble.empty()
+                    : OptionalDouble.of(firstUncertaintyHertz);
+        }
+
+        /** @return the second step's frequency uncertainty, Hz, or empty when not estimated */
+        public OptionalDouble secondUncertainty() {
+            return Double.isNaN(secondUncertaintyHertz) ? OptionalDouble.empty()
+                    : OptionalDouble.of(secondUncertaintyHertz);
+        }
     }
 
     /**
@@ -444,6 +490,20 @@ public final class AlkaliHyperfine {
      * its two F levels, from {@link DataContext#hyperfineConstants}: the measured constants of the low levels,
      * and a Rydberg level's scaled with n* ({@link RydbergHyperfine}). The two frequencies of a path add up to
      * the F -> F'' two-photon frequency whatever F'.
+     *
+     * <p><b>Uncertainties.</b> Each step's standard uncertainty is that step's own: its centroid's, as the plain
+     * ladder states it ({@link AlkaliAtom#frequencyUncertaintyHz}: the two levels' energy uncertainties), and
+     * the shift uncertainties of its two F levels ({@link HyperfineStructure#shiftUncertaintyHertz}: the stated
+     * uncertainties of A and B, uncorrelated), in quadrature; the centroid and the constants of different
+     * levels are taken as independent, since no source states a covariance. Correlations are real and left to
+     * the user: every component of a level carries the same error of its A and B (so offsets between two
+     * components sharing a level are known better than their two uncertainties suggest), the intermediate
+     * level's energy and constants enter both steps with opposite signs, and where a centroid and a level's
+     * constants come from one measurement (Rb-87 D2 and 5p3/2, Ye et al. 1996) their errors are correlated.
+     * For a level whose constants come from {@link RydbergHyperfine} (a Rydberg series scaled as n*^-3), only
+     * the stated uncertainty of the series' constant enters, scaled like the constant itself; the scaling's own
+     * error (a few per cent along a series, as each row's check says), a borrowed isotope ratio's hyperfine
+     * anomaly and a quadrupole term the source does not give are left out, not estimated.
      *
      * @param context      the data context (constants, nuclear spin, the atom's levels)
      * @param species      an isotope
@@ -458,29 +518,49 @@ public final class AlkaliHyperfine {
             State intermediate, State upper) {
         Objects.requireNonNull(context, "context");
         AlkaliAtom atom = context.alkaliAtom(species);
-        atom.ladder(lower, intermediate, upper); // refuses steps that are not electric-dipole lines
+        LadderExcitation centroids = atom.ladder(lower, intermediate, upper); // refuses non-dipole steps
         int twoI = context.nucleus(species).twiceSpin();
         State[] states = {lower, intermediate, upper};
         List<List<HyperfineLevel>> levels = new ArrayList<>();
+        List<double[]> shiftUncertainties = new ArrayList<>();
         for (State state : states) {
             HyperfineConstants c = context.hyperfineConstants(species, state).orElseThrow(() ->
                     new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no hyperfine constants for "
                             + species.notation() + " " + state.label() + " (neither measured nor scaled for a "
                             + "Rydberg level); the ladder cannot be resolved into F levels"));
-            levels.add(HyperfineStructure.levels(twoI, state.twoJ(), c));
+            // a Rydberg series' constants: only the stated uncertainties enter (see above)
+            HyperfineConstants forU = context.alkaliHyperfine().constants(species, state).isPresent() ? c
+                    : c.withStatedUncertaintiesOnly();
+            List<HyperfineLevel> fs = HyperfineStructure.levels(twoI, state.twoJ(), c);
+            double[] u = new double[fs.size()];
+            for (int k = 0; k < u.length; k++) {
+                u[k] = HyperfineStructure.shiftUncertaintyHertz(twoI, state.twoJ(), fs.get(k).twoF(), forU);
+            }
+            levels.add(fs);
+            shiftUncertainties.add(u);
         }
-        double first = atom.frequencyHz(lower, intermediate);
-        double second = atom.frequencyHz(intermediate, upper);
+        double first = centroids.firstHz();
+        double second = centroids.secondHz();
+        double uFirst = centroids.firstUncertaintyHz();
+        double uSecond = centroids.secondUncertaintyHz();
         List<LadderComponent> out = new ArrayList<>();
-        for (HyperfineLevel f : levels.get(0)) {
-            for (HyperfineLevel f1 : levels.get(1)) {
+        for (int i = 0; i < levels.get(0).size(); i++) {
+            HyperfineLevel f = levels.get(0).get(i);
+            double uf = shiftUncertainties.get(0)[i];
+            for (int j = 0; j < levels.get(1).size(); j++) {
+                HyperfineLevel f1 = levels.get(1).get(j);
+                double uf1 = shiftUncertainties.get(1)[j];
                 if (!dipoleAllowed(f.twoF(), f1.twoF())) {
                     continue;
                 }
-                for (HyperfineLevel f2 : levels.get(2)) {
+                for (int k = 0; k < levels.get(2).size(); k++) {
+                    HyperfineLevel f2 = levels.get(2).get(k);
+                    double uf2 = shiftUncertainties.get(2)[k];
                     if (dipoleAllowed(f1.twoF(), f2.twoF())) {
                         out.add(new LadderComponent(f.twoF(), f1.twoF(), f2.twoF(),
-                                first + f1.shiftHertz() - f.shiftHertz(), second + f2.shiftHertz() - f1.shiftHertz()));
+                                first + f1.shiftHertz() - f.shiftHertz(), second + f2.shiftHertz() - f1.shiftHertz(),
+                                Math.sqrt(uFirst * uFirst + uf * uf + uf1 * uf1),
+                                Math.sqrt(uSecond * uSecond + uf1 * uf1 + uf2 * uf2)));
                     }
                 }
             }
@@ -521,7 +601,8 @@ public final class AlkaliHyperfine {
                 + " has no level with 2F = " + twoF);
     }
 
-    private record Pair(int twoI, HyperfineConstants lower, HyperfineConstants upper, double centroid) {
+    private record Pair(int twoI, HyperfineConstants lower, HyperfineConstants upper, double centroid,
+            double centroidUncertainty) {
     }
 
     private Pair pair(DataContext context, Species species, State lower, State upper) {
@@ -530,7 +611,7 @@ public final class AlkaliHyperfine {
         LevelConstants up = constants(species, upper).orElseThrow(() -> missing(species, upper));
         AlkaliAtom atom = context.alkaliAtom(species);
         return new Pair(context.nucleus(species).twiceSpin(), lo.constants(), up.constants(),
-                atom.frequencyHz(lower, upper));
+                atom.frequencyHz(lower, upper), atom.frequencyUncertaintyHz(lower, upper).orElse(Double.NaN));
     }
 
     private ReferenceDataException missing(Species species, State state) {

@@ -415,6 +415,18 @@ public final class DataContext {
     /**
      * @param species a neutral alkali isotope
      * @param state   a level
+     * @return where {@link #hyperfineConstants} come from, in words: {@code measured} (the measured constants of
+     *         {@link #alkaliHyperfine()}, or a Rydberg series' row at the level it was measured at), or
+     *         {@link RydbergHyperfine#origin}'s {@code scaled as n*^-3 from ...}; empty when the level has none
+     */
+    public Optional<String> hyperfineConstantsOrigin(Species species, State state) {
+        return alkaliHyperfine().constants(species, state).isPresent() ? Optional.of("measured")
+                : rydbergHyperfine().origin(this, species, state);
+    }
+
+    /**
+     * @param species a neutral alkali isotope
+     * @param state   a level
      * @return its F levels from {@link #hyperfineConstants} (Casimir formula), by rising F, energies
      *         above the ground level's hyperfine-free centroid in cm^-1; empty when it has no constants
      */

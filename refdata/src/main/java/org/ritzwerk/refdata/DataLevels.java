@@ -29,7 +29,9 @@ public final class DataLevels {
      *                the order the sources are to be asked
      * @param tier    the level model of the one-electron ions
      * @return the sources: each ion with its context nucleus in that tier, each alkali atom as the
-     *         context assembles it with its {@linkplain #hyperfine hyperfine structure}, each other
+     *         context assembles it with its {@linkplain #hyperfine hyperfine structure} (an F level's model
+     *         saying whether its constants are measured or scaled: {@link DataContext#hyperfineConstantsOrigin}),
+     *         each other
      *         species' level list ({@link DataLines#levels})
      * @throws IllegalArgumentException naming a species that is none of these
      * @throws ReferenceDataException   when the context has no data for a species' isotope
@@ -42,8 +44,9 @@ public final class DataLevels {
             if (s.isHydrogenLike()) {
                 sources = sources.withHydrogenLike(s, HydrogenLikeModel.of(context.nucleus(s), tier.forZ(s.z())));
             } else if (s.charge() == 0 && context.alkaliSpecies().stream().anyMatch(a -> a.z() == s.z())) {
-                sources = sources.withAlkali(context.alkaliAtom(s), hyperfine(context, context.alkaliAtom(s)
-                        .species()));
+                Species isotope = context.alkaliAtom(s).species();
+                sources = sources.withAlkali(context.alkaliAtom(s), hyperfine(context, isotope),
+                        hyperfineModel(context, isotope));
             } else if (context.levelList(s).isPresent()) {
                 sources = sources.withLevels(DataLines.levels(context, s));
             } else {
@@ -71,5 +74,20 @@ public final class DataLevels {
         return state -> context.hyperfineConstants(isotope, state)
                 .map(c -> HyperfineStructure.levels(context.nucleus(isotope).twiceSpin(), state.twoJ(), c))
                 .orElse(List.of());
+    }
+
+    /**
+     * @param context where the data comes from
+     * @param isotope an alkali isotope, e.g. {@code Rb-87 I}
+     * @return what the model column says of a level's F levels after the level's origin
+     *         ({@link org.ritzwerk.engine.levels.LevelSources#withAlkali(org.ritzwerk.engine.rydberg.AlkaliAtom,
+     *         Function, Function)}): {@code hyperfine A, B} and where the constants come from,
+     *         {@link DataContext#hyperfineConstantsOrigin} ({@code measured}, or {@code scaled as n*^-3 from 7s
+     *         2S1/2} and the like), so each row tells measured constants from scaled ones
+     */
+    public static Function<State, String> hyperfineModel(DataContext context, Species isotope) {
+        Objects.requireNonNull(context, "context");
+        Objects.requireNonNull(isotope, "isotope");
+        return state -> "hyperfine A, B " + context.hyperfineConstantsOrigin(isotope, state).orElse("(none)");
     }
 }

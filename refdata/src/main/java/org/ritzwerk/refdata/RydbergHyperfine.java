@@ -54,14 +54,16 @@ public final class RydbergHyperfine {
      * @param unit        {@code MHz} or {@code GHz}
      * @param aHertz      a in Hz
      * @param bHertz      b in Hz (0 when bText is empty: no quadrupole term is applied)
+     * @param aUncertaintyHertz the stated standard uncertainty of a, Hz
+     * @param bUncertaintyHertz that of b, Hz; NaN when bText is empty (not stated)
      * @param fromN       the lowest n the scaling serves
      * @param provenance  published (read in the source) or from-memory
      * @param source      the measurement
      * @param checked     how the value was checked
      */
     public record Series(Species species, int l, int twoJ, String kind, int referenceN, String aText, String bText,
-            String unit, double aHertz, double bHertz, int fromN, Provenance.Kind provenance, String source,
-            String checked) {
+            String unit, double aHertz, double bHertz, double aUncertaintyHertz, double bUncertaintyHertz, int fromN,
+            Provenance.Kind provenance, String source, String checked) {
     }
 
     private final List<Series> series;
@@ -131,7 +133,7 @@ public final class RydbergHyperfine {
                 }
                 double toHertz = unit.equals("GHz") ? 1e9 : 1e6;
                 double a = new BigDecimal(f[5]).doubleValue() * toHertz;
-                new BigDecimal(f[6]);
+                double aUnc = uncertainty(f[6], "a-uncertainty") * toHertz;
                 boolean hasB = !f[7].isEmpty();
                 if (hasB && twoJ == 1) {
                     throw new IllegalArgumentException("b is given only for j > 1/2 (empty for j = 1/2)");
@@ -140,14 +142,12 @@ public final class RydbergHyperfine {
                     throw new IllegalArgumentException("b and b-uncertainty are both given or both empty");
                 }
                 double b = hasB ? new BigDecimal(f[7]).doubleValue() * toHertz : 0;
-                if (hasB) {
-                    new BigDecimal(f[8]);
-                }
+                double bUnc = hasB ? uncertainty(f[8], "b-uncertainty") * toHertz : Double.NaN;
                 int fromN = Integer.parseInt(f[10]);
                 if (fromN <= l) {
                     throw new IllegalArgumentException("from-n must exceed l, got " + f[10]);
                 }
-                Series s = new Series(species, l, twoJ, kind, referenceN, f[5], f[7], unit, a, b, fromN,
+                Series s = new Series(species, l, twoJ, kind, referenceN, f[5], f[7], unit, a, b, aUnc, bUnc, fromN,
                         Provenance.Kind.fromId(f[11]), f[12], f[13]);
                 if (out.stream().anyMatch(x -> x.species().equals(species) && x.l() == l && x.twoJ() == twoJ)) {
                     throw new IllegalArgumentException("second row for " + species.notation() + " l = " + l + ", j = "
@@ -159,6 +159,15 @@ public final class RydbergHyperfine {
             }
         }
         return new RydbergHyperfine(List.copyOf(out));
+    }
+
+    /** A stated standard uncertainty: a number, not negative. */
+    private static double uncertainty(String text, String column) {
+        BigDecimal u = new BigDecimal(text);
+        if (u.signum() < 0) {
+            throw new IllegalArgumentException(column + " must not be negative, got '" + text + "'");
+        }
+        return u.doubleValue();
     }
 
     /** @return every series, in file order; immutable */
@@ -182,30 +191,68 @@ public final class RydbergHyperfine {
      * @param context the data context (the isotope's levels and limit give n*)
      * @param species an isotope
      * @param state   a level, e.g. 60s 2S1/2
-     * @return A and B in Hz, or empty when the series has no scaling here or n is below its from-n; an
-     *         isotope without a row of its own uses another isotope's row of the element, scaled by the
-     *         ratio of the two isotopes' measured ground-level A (and first p3/2 B) constants
+     * @return A and B in Hz, with the stated uncertainties of the series' constants scaled the same way (the
+     *         scaling's own error is not in them; B's is NaN where the row gives no B), or empty when the
+     *         series has no scaling here or n is below its from-n; an isotope without a row of its own uses
+     *         another isotope's row of the element, scaled by the ratio of the two isotopes' measured
+     *         ground-level A (and first p3/2 B) constants
      */
     public Optional<HyperfineConstants> constants(DataContext context, Species species, State state) {
+        return resolve(context, species, state).map(r -> r.constants(context, species, state));
+    }
+
+    /**
+     * Where one level's constants come from, in words for a table's model column.
+     *
+     * @param context the data context
+     * @param species an isotope
+     * @param state   a level, e.g. 60s 2S1/2
+     * @return {@code measured} for the level a row was measured at (its own isotope's row of kind
+     *         {@code level}), otherwise {@code scaled as n*^-3 from} the reference level (e.g. {@code 7s 2S1/2}) or
+     *         {@code from a published scaled constant}, with {@code of} the other isotope and {@code times the
+     *         isotope ratio} for a borrowed row; empty when {@link #constants} is
+     */
+    public Optional<String> origin(DataContext context, Species species, State state) {
+        return resolve(context, species, state).map(r -> r.origin(species, state));
+    }
+
+    /** A series' row as it serves one level: the row, and the ratios for a borrowed isotope (1 for its own). */
+    private record Resolved(Series row, double aRatio, double bRatio, String how) {
+
+        HyperfineConstants constants(DataContext context, Species species, State state) {
+            AlkaliAtom atom = context.alkaliAtom(species);
+            double nStar = atom.level(state).effectiveN();
+            double scale = row.kind().equals("level")
+                    ? Math.pow(atom.level(State.of(row.referenceN(), row.l(), row.twoJ())).effectiveN() / nStar, 3)
+                    : Math.pow(nStar, -3);
+            boolean measuredHere = origin(species, state).equals("measured");
+            return new HyperfineConstants(row.aHertz() * scale * aRatio, row.bHertz() * scale * bRatio,
+                    row.source() + " (" + row.provenance().id() + ")" + how
+                            + (measuredHere ? ", measured at this level" : ", scaled as n*^-3"),
+                    row.aUncertaintyHertz() * scale * Math.abs(aRatio),
+                    row.bUncertaintyHertz() * scale * Math.abs(bRatio));
+        }
+
+        String origin(Species species, State state) {
+            boolean own = row.species().equals(species);
+            if (own && row.kind().equals("level") && state.n() == row.referenceN()) {
+                return "measured";
+            }
+            return "scaled as n*^-3 " + (row.kind().equals("level")
+                    ? "from " + State.of(row.referenceN(), row.l(), row.twoJ()).notation()
+                    : "from a published scaled constant")
+                    + (own ? "" : " of " + row.species().notation() + " times the isotope ratio");
+        }
+    }
+
+    private Optional<Resolved> resolve(DataContext context, Species species, State state) {
         Objects.requireNonNull(context, "context");
         Objects.requireNonNull(state, "state");
         Optional<Series> row = series(species, state.l(), state.twoJ());
         if (row.isPresent()) {
-            return state.n() < row.get().fromN() ? Optional.empty() : scaled(context, species, state, row.get(), 1, 1, "");
+            return state.n() < row.get().fromN() ? Optional.empty() : Optional.of(new Resolved(row.get(), 1, 1, ""));
         }
         return fromOtherIsotope(context, species, state);
-    }
-
-    /** The row's constants at {@code state} of {@code species}, A times aRatio and B times bRatio. */
-    private static Optional<HyperfineConstants> scaled(DataContext context, Species species, State state, Series s,
-            double aRatio, double bRatio, String how) {
-        AlkaliAtom atom = context.alkaliAtom(species);
-        double nStar = atom.level(state).effectiveN();
-        double scale = s.kind().equals("level")
-                ? Math.pow(atom.level(State.of(s.referenceN(), s.l(), s.twoJ())).effectiveN() / nStar, 3)
-                : Math.pow(nStar, -3);
-        return Optional.of(new HyperfineConstants(s.aHertz() * scale * aRatio, s.bHertz() * scale * bRatio,
-                s.source() + " (" + s.provenance().id() + ")" + how + ", scaled as n*^-3"));
     }
 
     /**
@@ -216,7 +263,7 @@ public final class RydbergHyperfine {
      * moment; common practice). Empty when the ratio needed is not measured, or n is below the row's
      * from-n.
      */
-    private Optional<HyperfineConstants> fromOtherIsotope(DataContext context, Species species, State state) {
+    private Optional<Resolved> fromOtherIsotope(DataContext context, Species species, State state) {
         AlkaliHyperfine measured = context.alkaliHyperfine();
         for (Series s : series) {
             Species other = s.species();
@@ -233,7 +280,7 @@ public final class RydbergHyperfine {
                     + String.format(java.util.Locale.ROOT, "%.6f", aRatio.get())
                     + (s.bText().isEmpty() ? "" : " (B: of the first p3/2 B constants "
                             + String.format(java.util.Locale.ROOT, "%.6f", bRatio.get()) + ")");
-            return scaled(context, species, state, s, aRatio.get(), bRatio.get(), how);
+            return Optional.of(new Resolved(s, aRatio.get(), bRatio.get(), how));
         }
         return Optional.empty();
     }

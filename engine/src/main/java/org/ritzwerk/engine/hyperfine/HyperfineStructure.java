@@ -61,11 +61,7 @@ public final class HyperfineStructure {
      * @throws IllegalArgumentException for an F that I and J cannot make
      */
     public static double shiftHertz(int twoI, int twoJ, int twoF, HyperfineConstants constants) {
-        checkSpins(twoI, twoJ);
-        if (twoF < Math.abs(twoI - twoJ) || twoF > twoI + twoJ || ((twoF + twoI + twoJ) & 1) != 0) {
-            throw new IllegalArgumentException("F = " + half(twoF) + " cannot be made from I = " + half(twoI)
-                    + " and J = " + half(twoJ));
-        }
+        checkF(twoI, twoJ, twoF);
         double i = twoI / 2.0;
         double j = twoJ / 2.0;
         double f = twoF / 2.0;
@@ -76,6 +72,44 @@ public final class HyperfineStructure {
                     / (4 * i * (2 * i - 1) * j * (2 * j - 1));
         }
         return e;
+    }
+
+    /**
+     * The standard uncertainty of one F level's shift ({@link #shiftHertz}) from the stated uncertainties of
+     * A and B, first order (the shift is linear in A and B, so it is exact):
+     * {@code u = sqrt((K/2 u_A)^2 + (c_B u_B)^2)}, with c_B the factor of B in the Casimir formula (class
+     * comment). A and B of one level are taken as uncorrelated: sources state no covariance (GUM, JCGM
+     * 100:2008, eq. 10, from memory; common practice). The B term counts only where the quadrupole term applies
+     * (I &gt;= 1 and J &gt;= 1).
+     *
+     * @param twoI 2 I; 0 to 40
+     * @param twoJ 2 J; 1 to 40
+     * @param twoF 2 F; |2I - 2J| to 2I + 2J in steps of 2
+     * @param constants A and B with their uncertainties
+     * @return the shift's standard uncertainty, Hz; NaN when an uncertainty it needs is not stated (NaN)
+     * @throws IllegalArgumentException for an F that I and J cannot make
+     */
+    public static double shiftUncertaintyHertz(int twoI, int twoJ, int twoF, HyperfineConstants constants) {
+        double[] d = partials(twoI, twoJ, twoF);
+        double a = d[0] * constants.aUncertaintyHertz();
+        if (d[1] == 0) {
+            return Math.abs(a); // no quadrupole term for this F (or this level): B's uncertainty does not enter
+        }
+        return Math.hypot(a, d[1] * constants.bUncertaintyHertz());
+    }
+
+    /** The factors of A and of B in the Casimir formula for this F: {K/2, c_B}. */
+    private static double[] partials(int twoI, int twoJ, int twoF) {
+        checkF(twoI, twoJ, twoF);
+        double i = twoI / 2.0;
+        double j = twoJ / 2.0;
+        double f = twoF / 2.0;
+        double k = f * (f + 1) - i * (i + 1) - j * (j + 1);
+        double b = 0;
+        if (twoI >= 2 && twoJ >= 2) {
+            b = (1.5 * k * (k + 1) - 2 * i * (i + 1) * j * (j + 1)) / (4 * i * (2 * i - 1) * j * (2 * j - 1));
+        }
+        return new double[] {k / 2, b};
     }
 
     /**
@@ -105,6 +139,34 @@ public final class HyperfineStructure {
      */
     public static List<HyperfineComponent> components(int twoI, int twoJLower, HyperfineConstants lower,
             int twoJUpper, HyperfineConstants upper, double centroidHertz) {
+        return components(twoI, twoJLower, lower, twoJUpper, upper, centroidHertz, Double.NaN);
+    }
+
+    /**
+     * Every allowed F -&gt; F' component of the line between a lower and an upper level, each with its
+     * frequency's standard uncertainty: the centroid's and the two F levels' shift uncertainties
+     * ({@link #shiftUncertaintyHertz}) in quadrature, the centroid and the constants of the two levels taken
+     * as independent (sources state no covariance). That is each component's own uncertainty: two components
+     * sharing a level share its constants' errors, so their difference is known better than the two
+     * uncertainties combined.
+     *
+     * @param twoI                     2 I; 0 to 40
+     * @param twoJLower                2 J of the lower level
+     * @param lower                    the lower level's A and B
+     * @param twoJUpper                2 J' of the upper level; |J - J'| &lt;= 1 and not both 0
+     * @param upper                    the upper level's A and B
+     * @param centroidHertz            the line's hyperfine-free centroid frequency, Hz; finite
+     * @param centroidUncertaintyHertz its standard uncertainty, Hz; not negative, or NaN when not estimated
+     * @return the components, by F then F', each with its frequency, uncertainty (NaN when the centroid's or
+     *         a needed constant's is not stated) and share of the line strength
+     * @throws IllegalArgumentException when J and J' are not joined by a dipole transition
+     */
+    public static List<HyperfineComponent> components(int twoI, int twoJLower, HyperfineConstants lower,
+            int twoJUpper, HyperfineConstants upper, double centroidHertz, double centroidUncertaintyHertz) {
+        if (centroidUncertaintyHertz < 0 || centroidUncertaintyHertz == Double.POSITIVE_INFINITY) {
+            throw new IllegalArgumentException("the centroid's uncertainty must be finite and not negative (Hz; NaN"
+                    + " for not estimated), got " + centroidUncertaintyHertz);
+        }
         Objects.requireNonNull(lower, "lower");
         Objects.requireNonNull(upper, "upper");
         checkSpins(twoI, twoJLower);
@@ -124,11 +186,26 @@ public final class HyperfineStructure {
                 if (share == 0) {
                     continue;
                 }
+                double u = Math.sqrt(centroidUncertaintyHertz * centroidUncertaintyHertz
+                        + square(shiftUncertaintyHertz(twoI, twoJLower, f.twoF(), lower))
+                        + square(shiftUncertaintyHertz(twoI, twoJUpper, g.twoF(), upper)));
                 out.add(new HyperfineComponent(f.twoF(), g.twoF(), centroidHertz + g.shiftHertz() - f.shiftHertz(),
-                        share));
+                        share, u));
             }
         }
         return List.copyOf(out);
+    }
+
+    private static void checkF(int twoI, int twoJ, int twoF) {
+        checkSpins(twoI, twoJ);
+        if (twoF < Math.abs(twoI - twoJ) || twoF > twoI + twoJ || ((twoF + twoI + twoJ) & 1) != 0) {
+            throw new IllegalArgumentException("F = " + half(twoF) + " cannot be made from I = " + half(twoI)
+                    + " and J = " + half(twoJ));
+        }
+    }
+
+    private static double square(double x) {
+        return x * x;
     }
 
     static void checkSpins(int twoI, int twoJ) {

@@ -189,7 +189,7 @@ public final class LevelQuery {
             if (entry.model() != null) {
                 hydrogenLike(entry.species(), entry.model(), progress, parts);
             } else if (entry.atom() != null) {
-                alkali(entry.atom(), entry.hyperfine(), progress, parts);
+                alkali(entry.atom(), entry.hyperfine(), entry.hyperfineModel(), progress, parts);
             } else {
                 parts.accept(listed(entry.levels()));
             }
@@ -222,8 +222,8 @@ public final class LevelQuery {
         }
     }
 
-    private void alkali(AlkaliAtom atom, Function<State, List<HyperfineLevel>> split, Progress progress,
-            Consumer<LevelSet> parts) {
+    private void alkali(AlkaliAtom atom, Function<State, List<HyperfineLevel>> split,
+            Function<State, String> splitModel, Progress progress, Consumer<LevelSet> parts) {
         int skipped = 0;
         String firstSkipped = null;
         int none = LevelSet.none();
@@ -259,10 +259,11 @@ public final class LevelQuery {
                             level.uncertaintyPerCm(), origin, row.lifetime(), row.lifetimeSigma(),
                             row.withBlackBody(), row.withBlackBodySigma());
                 }
+                String fModel = fLevels.isEmpty() ? null : origin + ", " + splitModel.apply(state);
                 for (HyperfineLevel f : fLevels) {
                     part.add(atom.species(), state.notation(), n, l, twoJ, f.twoF(), f.twoF() + 1,
                             level.energyPerCm() + f.shiftHertz() / (PhysicalConstants.C * 100), Double.NaN,
-                            origin + ", hyperfine A, B", row.lifetime(), row.lifetimeSigma(), row.withBlackBody(),
+                            fModel, row.lifetime(), row.lifetimeSigma(), row.withBlackBody(),
                             row.withBlackBodySigma());
                 }
             }

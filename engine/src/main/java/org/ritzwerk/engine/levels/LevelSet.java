@@ -188,8 +188,10 @@ public final class LevelSet {
     /**
      * @param i a level, 0 to size() - 1
      * @return where the energy comes from: the tier of a one-electron ion ({@code qed}), the origin of
-     *         an alkali level ({@code measured}, {@code quantum-defect}, ...; {@code , hyperfine A, B}
-     *         added for an F level), or {@code level list} and the list's id
+     *         an alkali level ({@code measured}, {@code quantum-defect}, ...; for an F level followed by where
+     *         its constants come from, e.g. {@code , hyperfine A, B measured} or {@code , hyperfine A, B scaled as
+     *         n*^-3 from 7s 2S1/2}, as the sources say, {@code , hyperfine A, B} when they do not), or
+     *         {@code level list} and the list's id
      */
     public String model(int i) {
         return model[i];

@@ -24,8 +24,12 @@ public final class LevelSources {
 
     /** One source: exactly one of model, atom and levels is set. */
     record Entry(Species species, HydrogenLikeModel model, AlkaliAtom atom,
-            Function<State, List<HyperfineLevel>> hyperfine, RitzLevels levels) {
+            Function<State, List<HyperfineLevel>> hyperfine, Function<State, String> hyperfineModel,
+            RitzLevels levels) {
     }
+
+    /** What the model column says of an F level when the caller does not say where its constants come from. */
+    static final String HYPERFINE_MODEL = "hyperfine A, B";
 
     private static final LevelSources NONE = new LevelSources(List.of());
 
@@ -48,7 +52,7 @@ public final class LevelSources {
      */
     public LevelSources withHydrogenLike(Species species, HydrogenLikeModel model) {
         Objects.requireNonNull(model, "model").requireIon(species);
-        return with(new Entry(species, model, null, null, null));
+        return with(new Entry(species, model, null, null, null, null));
     }
 
     /**
@@ -57,7 +61,7 @@ public final class LevelSources {
      * @return these sources and that atom
      */
     public LevelSources withAlkali(AlkaliAtom atom) {
-        return with(new Entry(atom.species(), null, atom, state -> List.of(), null));
+        return with(new Entry(atom.species(), null, atom, state -> List.of(), state -> HYPERFINE_MODEL, null));
     }
 
     /**
@@ -69,7 +73,22 @@ public final class LevelSources {
      * @return these sources and that atom
      */
     public LevelSources withAlkali(AlkaliAtom atom, Function<State, List<HyperfineLevel>> hyperfine) {
-        return with(new Entry(atom.species(), null, atom, Objects.requireNonNull(hyperfine, "hyperfine"), null));
+        return withAlkali(atom, hyperfine, state -> HYPERFINE_MODEL);
+    }
+
+    /**
+     * @param atom           an alkali isotope
+     * @param hyperfine      the F levels of a level, as for {@link #withAlkali(AlkaliAtom, Function)}
+     * @param hyperfineModel what a level's F levels say after the level's origin in the model column
+     *                       ({@link LevelSet#model}), so that measured constants can be told from derived
+     *                       ones row by row: e.g. {@code hyperfine A, B measured} or {@code hyperfine A, B
+     *                       scaled as n*^-3 from 7s 2S1/2}; asked only for a level with F levels
+     * @return these sources and that atom
+     */
+    public LevelSources withAlkali(AlkaliAtom atom, Function<State, List<HyperfineLevel>> hyperfine,
+            Function<State, String> hyperfineModel) {
+        return with(new Entry(atom.species(), null, atom, Objects.requireNonNull(hyperfine, "hyperfine"),
+                Objects.requireNonNull(hyperfineModel, "hyperfineModel"), null));
     }
 
     /**
@@ -77,7 +96,7 @@ public final class LevelSources {
      * @return these sources and those levels, as listed
      */
     public LevelSources withLevels(RitzLevels levels) {
-        return with(new Entry(levels.species(), null, null, null, levels));
+        return with(new Entry(levels.species(), null, null, null, null, levels));
     }
 
     /** @return the number of sources */

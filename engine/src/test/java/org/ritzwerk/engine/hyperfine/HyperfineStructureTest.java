@@ -87,6 +87,42 @@ class HyperfineStructureTest {
     }
 
     @Test
+    void shiftUncertaintiesFromTheConstantsUncertainties() {
+        // Rb-87 5p3/2, A = 84.7185(20) MHz, B = 12.4965(37) MHz (J. Ye et al., Opt. Lett. 21, 1280 (1996), from
+        // memory); by hand from the Casimir formula (I = J = 3/2): K = F(F+1) - 15/2, the factor of A is K/2 and
+        // that of B is (3/2 K(K+1) - 2 (15/4)^2) / 36: F' = 3: K = 9/2, 9/4 and 1/4; F' = 0: K = -15/2, -15/4 and
+        // 5/4; GUM eq. 10 (JCGM 100:2008, from memory), A and B uncorrelated
+        HyperfineConstants c = HyperfineConstants.ofMegahertz(84.7185, 0.0020, 12.4965, 0.0037, "Ye et al. 1996");
+        assertEquals(Math.hypot(9.0 / 4 * 2000, 1.0 / 4 * 3700), HyperfineStructure.shiftUncertaintyHertz(3, 3, 6, c),
+                1e-9);
+        assertEquals(Math.hypot(15.0 / 4 * 2000, 5.0 / 4 * 3700), HyperfineStructure.shiftUncertaintyHertz(3, 3, 0, c),
+                1e-9);
+        // J = 1/2: only A's (5s F = 2: 3/4 A), and B's unstated uncertainty does not matter there
+        HyperfineConstants ground = HyperfineConstants.ofMegahertz(3417.34130545215, 1e-6, 0, Double.NaN, "x");
+        assertEquals(0.75 * 1, HyperfineStructure.shiftUncertaintyHertz(3, 1, 4, ground), 1e-12);
+        // not stated: NaN, and a component with such a level or centroid has none either
+        assertTrue(Double.isNaN(HyperfineStructure.shiftUncertaintyHertz(3, 3, 6, RB87_5P32)));
+        assertTrue(Double.isNaN(HyperfineStructure.shiftUncertaintyHertz(3, 3, 6,
+                HyperfineConstants.ofMegahertz(84.7185, 0.0020, 12.4965, Double.NaN, "x"))));
+        assertTrue(HyperfineStructure.components(3, 1, ground, 3, c, 384.2304844685e12).stream()
+                .allMatch(x -> x.frequencyUncertainty().isEmpty()), "no centroid uncertainty given");
+        // the cooling component F = 2 -> F' = 3 with the D2 centroid's 6.2 kHz (Ye et al. 1996, from memory)
+        HyperfineComponent cooling = HyperfineStructure.components(3, 1, ground, 3, c, 384.2304844685e12, 6200).stream()
+                .filter(x -> x.twoFLower() == 4 && x.twoFUpper() == 6).findFirst().orElseThrow();
+        assertEquals(Math.sqrt(6200.0 * 6200 + 0.75 * 0.75 + 4500.0 * 4500 + 925.0 * 925),
+                cooling.frequencyUncertaintyHertz(), 1e-6);
+        // stated-only: the unstated ones taken as 0
+        assertEquals(9.0 / 4 * 2000, HyperfineStructure.shiftUncertaintyHertz(3, 3, 6,
+                HyperfineConstants.ofMegahertz(84.7185, 0.0020, 0, Double.NaN, "x").withStatedUncertaintiesOnly()),
+                1e-9);
+        assertThrows(IllegalArgumentException.class, () -> HyperfineConstants.ofMegahertz(1, -1, 0, 0, "x"));
+        assertThrows(IllegalArgumentException.class, () -> HyperfineConstants.ofMegahertz(1, 0, 0,
+                Double.POSITIVE_INFINITY, "x"));
+        assertThrows(IllegalArgumentException.class, () -> HyperfineStructure.components(3, 1, ground, 3, c, 1e14,
+                -1));
+    }
+
+    @Test
     void deltaFTwoAndZeroToZeroAreAbsent() {
         HyperfineConstants c = HyperfineConstants.ofMegahertz(100, 5, "test values");
         for (HyperfineComponent x : HyperfineStructure.components(3, 1, c, 3, c, 0)) {
