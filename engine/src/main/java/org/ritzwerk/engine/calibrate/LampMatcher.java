@@ -60,8 +60,10 @@ import org.ritzwerk.medium.Medium;
  * ultraviolet lines among its red ones. Unless switched off ({@link #withSecondOrder(boolean)}),
  * the window of lines searched holds, beside each line, its image at twice its wavelength. The
  * images never seed a hypothesis (their strength is unknown: nothing at all behind a filter),
- * are never paired during growth and never bend the polynomial; a peak is an image only when no
- * first-order line lies within the tolerance of where the polynomial puts it. A peak so explained
+ * are never paired during growth and never bend the polynomial; a peak is an image when no
+ * first-order line lies within the tolerance of where the polynomial puts it, or when an image
+ * lies less than half as far from it as that line (and growth then
+ * leaves that peak alone). A peak so explained
  * counts as matched (a strong peak matched, a term of the score, a precise match of the chance
  * test, whose line density counts the images too, so chance is judged against the denser
  * window) and is listed in {@link LampMatch#secondOrderPeaks()}; it is not a pair of the match,
@@ -150,6 +152,13 @@ public final class LampMatcher {
     /** Default smallest share of the strongest peaks a solution must explain. */
     public static final double DEFAULT_MIN_INLIER_FRACTION = 0.5;
 
+    /**
+     * A second-order image explains a peak instead of a first-order line within the tolerance when
+     * it lies closer than this share of that line's distance: a ghost taken for a faint lamp line
+     * a few pixels away bends the polynomial and shows in no residual, while an image taken for a
+     * real line only loses a pair.
+     */
+    private static final double IMAGE_PREFERENCE = 0.5;
     private static final int PEAK_NEIGHBOURS = 4;
     private static final int LINE_NEIGHBOURS = 8;
     private static final double SPAN_TOLERANCE = 0.005;
@@ -1003,8 +1012,13 @@ public final class LampMatcher {
             int nearest = NONE;
             double d1 = Double.POSITIVE_INFINITY;
             double d2 = Double.POSITIVE_INFINITY;
+            double image = Double.POSITIVE_INFINITY;
             for (int l = from; l < windowNm.length && windowNm[l] <= nm + widthNm; l++) {
-                if (taken(l) || window[l] < 0) { // images are never paired while growing
+                if (window[l] < 0) { // images are never paired while growing
+                    image = Math.min(image, Math.abs(windowNm[l] - nm));
+                    continue;
+                }
+                if (taken(l)) {
                     continue;
                 }
                 double d = Math.abs(windowNm[l] - nm);
@@ -1016,7 +1030,11 @@ public final class LampMatcher {
                     d2 = d;
                 }
             }
-            // One free line, or a nearest one that the others trail by more than a tolerance.
+            // One free line, or a nearest one that the others trail by more than a tolerance; a
+            // second-order image much nearer than that line may be what the peak is: not grown.
+            if (nearest != NONE && image < IMAGE_PREFERENCE * d1) {
+                return SEVERAL;
+            }
             return nearest == NONE || d2 - d1 > toleranceNm ? nearest : SEVERAL;
         }
 
@@ -1287,9 +1305,9 @@ public final class LampMatcher {
         }
 
         /**
-         * The nearest first-order line within reachNm of nm; when there is none, the nearest
-         * entry (a second-order image, or a line beyond the reach). A peak is an image only
-         * where no line of the lamp's first order can explain it.
+         * The nearest first-order line within reachNm of nm; when there is none, or the nearest
+         * entry is a second-order image less than IMAGE_PREFERENCE of that line's
+         * distance away, the nearest entry (an image, or a line beyond the reach).
          */
         private int nearestFirstOrder(double nm, double reachNm) {
             int line = nearest(nm);
@@ -1309,6 +1327,9 @@ public final class LampMatcher {
                         break;
                     }
                 }
+            }
+            if (best >= 0 && Math.abs(windowNm[line] - nm) < IMAGE_PREFERENCE * bestDistance) {
+                return line;
             }
             return best >= 0 ? best : line;
         }

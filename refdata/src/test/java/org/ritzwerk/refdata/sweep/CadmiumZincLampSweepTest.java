@@ -17,7 +17,8 @@ import org.ritzwerk.engine.calibrate.Calibrator;
  * 15 / 21 / 4 / 0 with the uncertainty ceiling of 1 pixel (15 / 20 / 5 / 0 before it, 16 / 19 / 5 / 0
  * earlier; 21 lines from 213.9 to 643.8 nm: a
  * window of 150 nm holds only 5 to 10, so
- * many are refused), Hg + Cd + Zn 25 / 12 / 3 / 0 (15 / 20 / 5 / 0 and 24 / 13 / 3 / 0 before a
+ * many are refused), Hg + Cd + Zn 26 / 11 / 3 / 0 since growth leaves peaks nearer a second-order
+ * image than a lamp line alone (25 / 12 / 3 / 0 before; 15 / 20 / 5 / 0 and 24 / 13 / 3 / 0 before a
  * pair's centroid got the bound of a neighbouring lamp line). Before the lack-of-fit test for a degree that
  * the pair count capped ({@code Calibrator.LACK_OF_FIT_PROBABILITY}) Hg + Cd + Zn seed 24 was
  * accepted 5.5 pixels off: a straight line through four pairs of a curved dispersion (reduced

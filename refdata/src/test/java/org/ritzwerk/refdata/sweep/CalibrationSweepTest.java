@@ -98,18 +98,21 @@ class CalibrationSweepTest {
      * pairing's 8 pairs within 0.17 pixel are met by 0.2 chance matches, probability 6.4e-6 over
      * 4809 pairings tried, 0.031 in all where 0.01 is accepted (over the 1595 distinct solutions
      * those pairings make, the trials counted now, 0.0102: still refused). With images left out it
-     * is solved as before.
+     * is solved as before. Since growth leaves a peak alone when a second-order image lies much
+     * nearer to it than the lamp line it would take (LampMatcher.IMAGE_PREFERENCE), fewer pairings
+     * are tried and seed 94 is solved with images too.
      */
     @Test
     void aLoneEndPairTheOthersDoNotConfirmIsDropped() {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(163, 1, 0.6, Calibrator.defaults());
         assertEquals(1, outcome.solved(), outcome.toString());
-        for (long seed : new long[] {94, 223}) {
-            outcome = CalibrationSweep.run(seed, 1, 0.6, Calibrator.defaults());
-            assertEquals(1, outcome.refused(), outcome.toString());
+        outcome = CalibrationSweep.run(223, 1, 0.6, Calibrator.defaults());
+        assertEquals(1, outcome.refused(), outcome.toString());
+        for (Calibrator settings : new Calibrator[] {Calibrator.defaults(),
+            Calibrator.defaults().withSecondOrder(false)}) {
+            outcome = CalibrationSweep.run(94, 1, 0.6, settings);
+            assertEquals(1, outcome.solved(), outcome.toString());
         }
-        outcome = CalibrationSweep.run(94, 1, 0.6, Calibrator.defaults().withSecondOrder(false));
-        assertEquals(1, outcome.solved(), outcome.toString());
     }
 
     /**
