@@ -6,7 +6,8 @@ import org.ritzwerk.atom.Species;
 
 /**
  * The result of {@link Identifier#identify}: per peak (in the peaks' order) the status, the line
- * it is matched to, the residual and the cost, the runner-up line; and the summaries a report
+ * it is matched to, the residual and the cost, the runner-up line, why an ambiguous peak is
+ * ambiguous and the line it is weighed against; and the summaries a report
  * needs: unexplained peaks, strong lines that are missing, and the presence of each species.
  * Immutable and thread-safe.
  */
@@ -25,7 +26,8 @@ public final class Identification {
      * not show its strong lines in the peaks' range beyond chance ({@link #speciesNotShown}: none
      * of them explains a peak, or no more than chance gives and fewer than a present species
      * would show), so that a line from outside the catalogue is as likely an explanation
-     * ({@link #speciesPresence} counts those strong lines).
+     * ({@link #speciesPresence} counts those strong lines); or a stray peak explains it about as
+     * well ({@link #mayBeStray}). {@link #ambiguity} says which of these flag a peak.
      */
     public static final byte AMBIGUOUS = 2;
 

@@ -72,7 +72,9 @@ import java.util.Objects;
  * proportion to their strength, as S^0.3, or alike). A peak alone in its component compares its two cheapest
  * candidates; otherwise the component is solved again with the peak barred from its line,
  * except where a bound settles it (no other peak wants the line: the alternative costs at
- * least the peak's own cost difference). A peak that has no other candidate is never
+ * least the peak's own cost difference). The line the peak explains in that other assignment
+ * and the odds are kept for the peaks they flag ({@link Identification#rival},
+ * {@link Identification#rivalOdds}). A peak that has no other candidate is never
  * ambiguous; which of several peaks a line belongs to is not ambiguity (the others are left
  * unexplained). The catalogue holds only the species offered, so a peak from anything else (a
  * foreign gas, an impurity) takes the nearest line it finds: a peak matched to a line of a
