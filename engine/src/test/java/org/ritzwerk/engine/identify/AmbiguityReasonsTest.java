@@ -2,6 +2,10 @@ package org.ritzwerk.engine.identify;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.quicktheories.QuickTheory.qt;
+import static org.quicktheories.generators.SourceDSL.arbitrary;
+import static org.quicktheories.generators.SourceDSL.doubles;
+import static org.quicktheories.generators.SourceDSL.lists;
 
 import java.util.Arrays;
 import java.util.EnumSet;
@@ -204,5 +208,122 @@ class AmbiguityReasonsTest {
         }
         assertTrue(rivals > 100, "peaks with a rival: " + rivals);
         assertTrue(reasons[Ambiguity.MAY_BE_STRAY.ordinal()] > 10, Arrays.toString(reasons));
+    }
+
+    /**
+     * The rival and its odds are those of an exhaustive search: on small random crowded scenes
+     * (up to 6 peaks and 6 ordinary lines; QuickTheories, fixed seed) every assignment is
+     * enumerated, and for each matched peak the best one with the most matches in which the peak
+     * explains a different line is found. A peak flagged as a close rival has that assignment's
+     * cost over the optimum's as ln of its odds, and its rival is a line it takes in such an
+     * assignment; an unflagged matched peak has no such assignment with as many matches, or one
+     * at least 20 times less probable.
+     */
+    @Test
+    void theRivalAndItsOddsAreThoseOfAnExhaustiveSearch() {
+        int[] checked = new int[2];
+        qt().withFixedSeed(78L).withExamples(400)
+                .forAll(lists().of(doubles().between(0, 10)).ofSizeBetween(1, 6),
+                        lists().of(doubles().between(0, 10)).ofSizeBetween(1, 6),
+                        lists().of(doubles().between(0.05, 1)).ofSizeBetween(6, 6),
+                        arbitrary().pick(java.util.List.of(Tolerance.absolute(1.5e-12), Tolerance.kSigma(3))))
+                .checkAssert((peakOffsets, lineOffsets, strengths, tolerance) -> {
+                    LineCatalog.Builder builder = LineCatalog.builder();
+                    for (int j = 0; j < lineOffsets.size(); j++) {
+                        builder.add(H, 500e-9 + lineOffsets.get(j) * 1e-12, 0.3e-12, strengths.get(j), null);
+                    }
+                    LineCatalog lines = builder.build();
+                    double[] positions = peakOffsets.stream().mapToDouble(d -> 500e-9 + d * 1e-12).distinct()
+                            .toArray();
+                    double[] sigmas = new double[positions.length];
+                    Arrays.fill(sigmas, 0.4e-12);
+                    PeakList peaks = PeakList.ofVacuumMetres(positions, sigmas);
+                    Identification result = Identifier.of(tolerance).identify(peaks, lines);
+                    double[][] cost = costs(peaks, lines, tolerance);
+                    double[] optimum = best(cost, -1, -1, new int[peaks.size()]);
+                    for (int i = 0; i < peaks.size(); i++) {
+                        int j = result.line(i);
+                        if (j < 0) {
+                            continue;
+                        }
+                        int[] taken = new int[peaks.size()];
+                        double[] other = best(cost, i, j, taken);
+                        String where = "peak " + i + " of " + Arrays.toString(positions) + ", lines "
+                                + lineOffsets + ", " + tolerance;
+                        checked[result.matchedByOdds(i) ? 0 : 1]++;
+                        if (!result.matchedByOdds(i)) {
+                            assertEquals(optimum[0], other[0], where);
+                            assertEquals(other[1] - optimum[1], Math.log(result.rivalOdds(i)), 1e-9, where);
+                            int rival = result.rival(i);
+                            int[] onRival = new int[peaks.size()];
+                            double[] viaRival = best(cost, i, -2 - rival, onRival);
+                            assertEquals(other[0], viaRival[0], where);
+                            assertEquals(other[1], viaRival[1], 1e-9, where + ": the rival " + rival
+                                    + " gives the best other assignment (" + taken[i] + " does)");
+                        } else {
+                            assertTrue(other[0] < optimum[0]
+                                    || other[1] - optimum[1] >= Math.log(Identifier.DEFAULT_AMBIGUITY_ODDS) - 1e-9,
+                                    where);
+                        }
+                    }
+                });
+        // the scenes hold both kinds of peak (418 unflagged matches and 287 close rivals)
+        assertTrue(checked[0] > 100 && checked[1] > 100, Arrays.toString(checked));
+    }
+
+    /** @return cost[i][j] of peak i on line j (0.5 z^2 - w ln S), NaN where j lies beyond i's tolerance */
+    private static double[][] costs(PeakList peaks, LineCatalog lines, Tolerance tolerance) {
+        double[][] cost = new double[peaks.size()][lines.size()];
+        for (int i = 0; i < peaks.size(); i++) {
+            double x = peaks.wavelength(i);
+            for (int j = 0; j < lines.size(); j++) {
+                double r = x - lines.wavelength(j);
+                double s = tolerance.scoringSigma(x, peaks.sigma(i), lines.sigma(j));
+                cost[i][j] = Math.abs(r) > tolerance.halfWidth(x, peaks.sigma(i), lines.sigma(j)) ? Double.NaN
+                        : 0.5 * (r / s) * (r / s) - Identifier.DEFAULT_STRENGTH_WEIGHT * Math.log(lines.strength(j));
+            }
+        }
+        return cost;
+    }
+
+    /**
+     * The best one-to-one assignment by exhaustive search: the most matches, then the least cost.
+     *
+     * @param peak  a peak the assignment must match, or -1
+     * @param line  with {@code peak}: a line it must not take (0 and up), or -2 - the line it must take
+     * @param taken filled with the best assignment's line per peak (-1 for none)
+     * @return {matches, cost}; matches -1 when no assignment meets the condition
+     */
+    private static double[] best(double[][] cost, int peak, int line, int[] taken) {
+        double[] best = {-1, Double.POSITIVE_INFINITY};
+        enumerate(cost, 0, new boolean[cost[0].length], new int[cost.length], 0, 0, peak, line, best, taken);
+        return best;
+    }
+
+    private static void enumerate(double[][] cost, int i, boolean[] used, int[] assigned, int matches, double total,
+            int peak, int line, double[] best, int[] taken) {
+        if (i == cost.length) {
+            if (matches > best[0] || matches == best[0] && total < best[1]) {
+                best[0] = matches;
+                best[1] = total;
+                System.arraycopy(assigned, 0, taken, 0, assigned.length);
+            }
+            return;
+        }
+        if (i != peak) {
+            assigned[i] = -1;
+            enumerate(cost, i + 1, used, assigned, matches, total, peak, line, best, taken);
+        }
+        for (int j = 0; j < cost[i].length; j++) {
+            boolean allowed = i != peak || (line >= 0 ? j != line : j == -2 - line);
+            if (used[j] || Double.isNaN(cost[i][j]) || !allowed) {
+                continue;
+            }
+            used[j] = true;
+            assigned[i] = j;
+            enumerate(cost, i + 1, used, assigned, matches + 1, total + cost[i][j], peak, line, best, taken);
+            used[j] = false;
+        }
+        assigned[i] = -1;
     }
 }
