@@ -3,8 +3,10 @@ package org.ritzwerk.cli;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.Set;
 import java.util.concurrent.Callable;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.convert.SpectralArrays;
@@ -488,7 +490,7 @@ final class IdentifyCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         Unit unit = read.unit();
         Medium medium = read.medium();
-        Table table = new Table(List.of(
+        List<Table.Column> columns = new ArrayList<>(List.of(
                 Table.Column.text("peak", "peak"),
                 Table.Column.text("file_line", "line"),
                 Table.Column.number("position", "position " + unit.symbol() + (medium == null ? "" : " "
@@ -498,7 +500,17 @@ final class IdentifyCommand implements Callable<Integer> {
                 Table.Column.text("transition", "transition"),
                 Table.Column.number("line_position", "line", "%.6f"),
                 Table.Column.number("residual", "residual", "%+.6f"),
-                Table.Column.number("residual_sigma", "res/sigma", "%+.2f")), out, format);
+                Table.Column.number("residual_sigma", "res/sigma", "%+.2f")));
+        // Why a peak is ambiguous: one column of words in the text table; in CSV and JSON the
+        // reasons' ids and the rival line's fields apart.
+        boolean asText = format == Table.Format.text;
+        columns.addAll(asText ? List.of(Table.Column.text("why", "why")) : List.of(
+                Table.Column.text("ambiguity", "ambiguity"),
+                Table.Column.text("rival_species", "rival_species"),
+                Table.Column.text("rival_transition", "rival_transition"),
+                Table.Column.number("rival_position", "rival_position", "%.6f"),
+                Table.Column.number("rival_odds", "rival_odds", "%.3g")));
+        Table table = new Table(columns, out, format);
         double[] linePositions = new double[1];
         double[] positions = read.positions();
         int[] fileLines = read.lines();
@@ -512,10 +524,29 @@ final class IdentifyCommand implements Callable<Integer> {
                         medium, linePositions);
                 linePosition = linePositions[0];
             }
-            table.add(i + 1, fileLines[i], positions[i], status, j < 0 ? null : lines.species(j).notation(),
-                    j < 0 ? null : lines.label(j), linePosition,
-                    linePosition == null ? null : positions[i] - linePosition,
-                    j < 0 ? null : result.normalizedResidual(i, unit));
+            Set<Identification.Ambiguity> why = result.ambiguity(i);
+            int rival = result.rival(i);
+            Double rivalPosition = null;
+            if (rival >= 0) {
+                SpectralArrays.convert(new double[] {result.rivalPosition(i)}, Unit.METRE, Medium.vacuum(), unit,
+                        medium, linePositions);
+                rivalPosition = linePositions[0];
+            }
+            List<Object> row = new ArrayList<>(List.of(i + 1, fileLines[i], positions[i], status));
+            row.addAll(Arrays.asList(j < 0 ? null : lines.species(j).notation(), j < 0 ? null : lines.label(j),
+                    linePosition, linePosition == null ? null : positions[i] - linePosition,
+                    j < 0 ? null : result.normalizedResidual(i, unit)));
+            String rivalSpecies = rival < 0 ? null : lines.species(rival).notation();
+            if (asText) {
+                row.add(why.isEmpty() ? null : whyWords(why, rival < 0 ? null : rivalSpecies + " " + lines.label(rival),
+                        rivalPosition, result.rivalOdds(i)));
+            } else {
+                row.addAll(Arrays.asList(why.isEmpty() ? null
+                        : String.join(";", why.stream().map(Identification.Ambiguity::id).toList()),
+                        rivalSpecies, rival < 0 ? null : lines.label(rival), rivalPosition,
+                        rival < 0 ? null : result.rivalOdds(i)));
+            }
+            table.add(row.toArray());
         }
         table.finish();
         PrintWriter summary = format == Table.Format.text ? out : spec.commandLine().getErr();
@@ -576,6 +607,25 @@ final class IdentifyCommand implements Callable<Integer> {
                     + " the strong lines found to be told from chance");
         }
         summary.flush();
+    }
+
+    /**
+     * The text table's account of why a peak is ambiguous: the reasons' words, the close rival's
+     * line, where it lies (in the peaks' unit and medium) and the odds against it, e.g.
+     * {@code close rival He II 6560 (6-4) at 656.019876, odds 3.14:1; may be stray}.
+     */
+    static String whyWords(Set<Identification.Ambiguity> why, String rival, Double rivalPosition, double odds) {
+        List<String> words = new ArrayList<>(why.size());
+        for (Identification.Ambiguity reason : why) {
+            if (reason == Identification.Ambiguity.CLOSE_RIVAL && rival != null) {
+                words.add(reason.words() + " " + rival + " at " + Table.unsignedZero(String.format(Locale.ROOT, "%.6f",
+                        rivalPosition))
+                        + (Double.isFinite(odds) ? ", odds " + String.format(Locale.ROOT, "%.3g", odds) + ":1" : ""));
+            } else {
+                words.add(reason.words());
+            }
+        }
+        return String.join("; ", words);
     }
 
     /** @return whether some species has strong lines in the peaks' range, so that its presence was judged */

@@ -127,6 +127,11 @@ class IdentifyCommandTest {
                 run.out());
         assertTrue(run.out().matches("(?s).*32 peaks: 0 matched, ([1-9]) ambiguous \\(\\1 of a species not shown beyond"
                 + " chance\\), .*"), run.out());
+        // each ambiguous peak says why
+        assertTrue(java.util.regex.Pattern.compile("(?m)^\\d+ +\\d+ +\\S+ +ambiguous .* species not shown(; may be stray)?$")
+                .matcher(run.out()).find(), run.out());
+        assertFalse(java.util.regex.Pattern.compile("(?m)^\\d+ +\\d+ +\\S+ +ambiguous .* -$").matcher(run.out())
+                .find(), run.out());
         assertTrue(run.out().contains("note: no species shows its strong lines beyond chance, so the matches may rest"
                 + " on coincidences"), run.out());
     }
@@ -283,6 +288,73 @@ class IdentifyCommandTest {
         assertTrue(run.out().contains("16 peaks: 3 matched, 1 ambiguous (1 that a stray peak may explain), 12"
                 + " unexplained"), run.out());
         assertTrue(run.out().matches("(?s).*\\n2 +11 +434\\.077000 +ambiguous +H I +Balmer gamma .*"), run.out());
+        // the row says why, and no other row is ambiguous
+        assertTrue(run.out().matches("(?s).*\\n2 +11 +434\\.077000 +ambiguous [^\\n]* may be stray\\n.*"), run.out());
+        CliTest.Run csv = CliTest.run("identify", peaks.toString(), "--species", "H I", "--format", "csv");
+        assertEquals(0, csv.code(), csv.err());
+        assertTrue(csv.out().lines().skip(2).findFirst().orElseThrow().endsWith(",may_be_stray,,,,"), csv.out());
+    }
+
+    /**
+     * Why a peak is ambiguous, in each format: a peak 2 sigma from a line and 1.3 sigma from a
+     * line of the same species 100 times weaker takes the strong line at odds of about 3.3 to 1
+     * (the test above): the text table names the close rival with its position and odds, CSV and
+     * JSON give the reason's id and the rival's fields apart, and a matched or unexplained peak
+     * has them empty (CSV) or null (JSON). The odds, exp(z_weak^2 / 2 + ln(100) / 2 - z_strong^2 /
+     * 2) with z = 0.004 / 0.003 and 0.006 / 0.003, are Bayes' rule with Gaussian likelihoods and
+     * the strength prior at weight 1/2 (common practice; {@code Identifier}'s cost).
+     */
+    @Test
+    void anAmbiguousPeakSaysWhyAndNamesItsRival(@TempDir Path dir) throws IOException {
+        Path lines = dir.resolve("two.csv");
+        Files.writeString(lines, "# ritzwerk-lines 1\n# id: invented-two\n# title: t\n# source: invented\n"
+                + "# provenance: measured\n# version: 1\n# position-unit: nm\n# medium: air\n"
+                + "species,position,intensity\nKr I,500.000,100\nKr I,500.010,1\nKr I,520.000,100\n",
+                StandardCharsets.UTF_8);
+        Path peaks = dir.resolve("two-peaks.csv");
+        Files.writeString(peaks, HEADER + "position,uncertainty\n500.006,0.003\n519.999,0.003\n530.000,0.003\n",
+                StandardCharsets.UTF_8);
+        double odds = Math.exp(0.5 * (4.0 / 3) * (4.0 / 3) + 0.5 * Math.log(100) - 0.5 * 2 * 2);
+
+        CliTest.Run text = CliTest.run("identify", peaks.toString(), "--lines", lines.toString());
+        assertEquals(0, text.code(), text.err());
+        String first = text.out().lines().skip(1).findFirst().orElseThrow();
+        assertTrue(first.matches("1 +10 +500\\.006000 +ambiguous +Kr I +invented-two 500\\.0 nm air +500\\.000000 .*"
+                + " close rival Kr I invented-two 500\\.01 nm air at 500\\.010000, odds "
+                + String.format(java.util.Locale.ROOT, "%.3g", odds) + ":1"), first);
+        assertTrue(text.out().lines().skip(2).findFirst().orElseThrow().endsWith(" -"), text.out());
+        assertTrue(text.out().lines().findFirst().orElseThrow().endsWith("res/sigma  why"), text.out());
+
+        CliTest.Run csv = CliTest.run("identify", peaks.toString(), "--lines", lines.toString(), "--format", "csv");
+        assertEquals(0, csv.code(), csv.err());
+        List<String> rows = csv.out().lines().toList();
+        assertEquals("peak,file_line,position,status,species,transition,line_position,residual,residual_sigma,"
+                + "ambiguity,rival_species,rival_transition,rival_position,rival_odds", rows.get(0));
+        assertTrue(rows.get(1).contains(",ambiguous,\"Kr I\",\"invented-two 500.0 nm air\","), rows.get(1));
+        assertTrue(rows.get(1).matches(".*,close_rival,\"Kr I\",\"invented-two 500.01 nm air\",500\\.01(0*\\d*)?,"
+                + "[0-9.]+"), rows.get(1));
+        assertTrue(rows.get(2).endsWith(",,,,,"), rows.get(2));
+        assertTrue(rows.get(3).contains(",unexplained,") && rows.get(3).endsWith(",,,,,"), rows.get(3));
+
+        CliTest.Run json = CliTest.run("identify", peaks.toString(), "--lines", lines.toString(), "--format", "json");
+        assertEquals(0, json.code(), json.err());
+        JsonMapper mapper = JsonMapper.builder().build();
+        String[] objects = json.out().strip().split("\\R");
+        JsonNode ambiguous = mapper.readTree(objects[0]);
+        assertEquals("close_rival", ambiguous.get("ambiguity").asString());
+        assertEquals("Kr I", ambiguous.get("rival_species").asString());
+        assertEquals("invented-two 500.01 nm air", ambiguous.get("rival_transition").asString());
+        assertEquals(500.010, ambiguous.get("rival_position").asDouble(), 1e-9, "in the peaks' unit and medium");
+        // the peaks are in air: positions scale by the refractive index, residuals with them (1e-3 relative)
+        assertEquals(odds, ambiguous.get("rival_odds").asDouble(), 1e-3 * odds);
+        for (int k = 1; k < 3; k++) {
+            JsonNode row = mapper.readTree(objects[k]);
+            for (String field : new String[] {"ambiguity", "rival_species", "rival_transition", "rival_position",
+                "rival_odds"}) {
+                assertTrue(row.get(field).isNull(), objects[k]);
+            }
+        }
+        assertEquals("matched", mapper.readTree(objects[1]).get("status").asString());
     }
 
     /** A width tolerance under three of the peaks' uncertainties is noted (its odds are overconfident). */

@@ -117,7 +117,12 @@ public final class Schemas {
      * {@code species} and {@code line} (the line's label), {@code line_position} (the line as
      * matched, shifted by the velocity and offset found, in the peaks' unit and medium),
      * {@code residual} (position minus line_position) and {@code residual_sigma} (the residual
-     * over its scoring uncertainty); the last four null when unexplained.
+     * over its scoring uncertainty); the last four null when unexplained; {@code ambiguity} (why
+     * the peak is ambiguous: {@code close_rival}, {@code species_not_shown}, {@code may_be_stray},
+     * joined by {@code ;}; null when it is not, the engine's {@code Identification.ambiguity});
+     * for a close rival {@code rival_species}, {@code rival_line} (the rival line's label),
+     * {@code rival_position} (where it lies, as line_position) and {@code rival_odds} (the
+     * posterior odds of the peak's line against it), all four null otherwise.
      */
     public static final StructType IDENTIFIED_PEAK = struct(
             required("peak", DataTypes.IntegerType),
@@ -127,7 +132,12 @@ public final class Schemas {
             optional("line", DataTypes.StringType),
             optional("line_position", DataTypes.DoubleType),
             optional("residual", DataTypes.DoubleType),
-            optional("residual_sigma", DataTypes.DoubleType));
+            optional("residual_sigma", DataTypes.DoubleType),
+            optional("ambiguity", DataTypes.StringType),
+            optional("rival_species", DataTypes.StringType),
+            optional("rival_line", DataTypes.StringType),
+            optional("rival_position", DataTypes.DoubleType),
+            optional("rival_odds", DataTypes.DoubleType));
 
     /**
      * A species' presence weighed against chance (the engine's

@@ -594,6 +594,46 @@ public final class SurveyIdentification {
             }
         }
 
+        /** The reasons' ids joined by ';', by the set's bits in {@link Identification.Ambiguity} order. */
+        private final UTF8String[] ambiguities = new UTF8String[1 << Identification.Ambiguity.values().length];
+        private final double[] rivalPosition = new double[1];
+
+        /**
+         * Writes why peak i is ambiguous and its close rival (fields 8 to 12 of
+         * {@link Schemas#IDENTIFIED_PEAK}), as the identify command's CSV does; the rival's
+         * position converted alone (the conversion is element by element, so it is the value the
+         * command gives).
+         */
+        private void ambiguity(Identification result, int i, LineCatalog lines, UTF8String[] notations) {
+            java.util.Set<Identification.Ambiguity> why = result.ambiguity(i);
+            int bits = 0;
+            for (Identification.Ambiguity reason : why) {
+                bits |= 1 << reason.ordinal();
+            }
+            if (bits == 0) {
+                peakOut.setNullAt(8);
+            } else {
+                if (ambiguities[bits] == null) {
+                    ambiguities[bits] = Catalyst.utf8(String.join(";",
+                            why.stream().map(Identification.Ambiguity::id).toList()));
+                }
+                Catalyst.string(peakOut, 8, ambiguities[bits]);
+            }
+            int rival = result.rival(i);
+            if (rival < 0) {
+                for (int field = 9; field < 13; field++) {
+                    peakOut.setNullAt(field);
+                }
+                return;
+            }
+            SpectralArrays.convert(new double[] {result.rivalPosition(i)}, Unit.METRE, Medium.vacuum(), unit, medium,
+                    rivalPosition);
+            Catalyst.string(peakOut, 9, notations[lines.speciesIndex(rival)]);
+            Catalyst.string(peakOut, 10, strings.of(lines.label(rival)));
+            Catalyst.orNull(peakOut, 11, rivalPosition[0]);
+            Catalyst.orNull(peakOut, 12, result.rivalOdds(i));
+        }
+
         private static double[] orNaN(double[] values, int n) {
             if (values != null) {
                 return values;
@@ -658,6 +698,7 @@ public final class SurveyIdentification {
                     peakOut.write(6, positions[i] - line);
                     Catalyst.orNull(peakOut, 7, result.normalizedResidual(i, unit));
                 }
+                ambiguity(result, i, lines, notations);
                 peaksOut.setOffsetAndSizeFromPreviousCursor(i, at);
             }
             out.setOffsetAndSizeFromPreviousCursor(1, start);

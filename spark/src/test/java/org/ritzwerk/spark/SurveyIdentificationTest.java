@@ -107,11 +107,14 @@ class SurveyIdentificationTest {
         Map<String, Fixtures.PeakListData> byId = new HashMap<>();
         lists.forEach(l -> byId.put(l.id(), l));
         int matched = 0;
+        int[] ambiguities = new int[2];
         for (Row row : rows) {
             Fixtures.PeakListData list = byId.get(row.getString(0));
-            matched += compare(library, candidates, list, row);
+            matched += compare(library, candidates, list, row, ambiguities);
         }
         assertTrue(matched > 12 * 15, "most peaks drawn from the lines are explained: " + matched);
+        // (these lists have no close rival; the strength-weight test below has)
+        assertTrue(ambiguities[0] > 0, "the reasons are compared: " + ambiguities[0] + " ambiguous");
     }
 
     @Test
@@ -168,6 +171,17 @@ class SurveyIdentificationTest {
                     .peaks().collectAsList();
             assertEquals(1, peaks.size());
             taken[k] = peaks.get(0).getAs("line_position");
+            // ambiguous either way, the other line its close rival: odds exp(z_other^2 / 2 - z^2 / 2 + w ln S
+            // ratio), Bayes' rule with Gaussian likelihoods and the tempered strength prior (common practice)
+            Row peak = peaks.get(0);
+            assertEquals("close_rival", peak.getAs("ambiguity"));
+            assertEquals("Kr I", peak.getAs("rival_species"));
+            assertEquals(k == 0 ? 500.010 : 500.000, (double) peak.getAs("rival_position"), 1e-9);
+            double zStrong = 0.006 / 0.003;
+            double zWeak = 0.004 / 0.003;
+            double odds = k == 0 ? Math.exp(0.5 * zWeak * zWeak + 0.5 * Math.log(100) - 0.5 * zStrong * zStrong)
+                    : Math.exp(0.5 * zStrong * zStrong - 0.5 * zWeak * zWeak);
+            assertEquals(odds, (double) peak.getAs("rival_odds"), 1e-6 * odds);
         }
         assertEquals(500.000, taken[0], 1e-9, "the strong line at the default weight");
         assertEquals(500.010, taken[1], 1e-9, "the nearer weak line by position alone");
@@ -221,6 +235,15 @@ class SurveyIdentificationTest {
      *         a species' strong lines, which makes its matches ambiguous)
      */
     private static int compare(Library library, Candidates candidates, Fixtures.PeakListData list, Row row) {
+        return compare(library, candidates, list, row, new int[2]);
+    }
+
+    /**
+     * As {@link #compare(Library, Candidates, Fixtures.PeakListData, Row)}, counting the peaks
+     * that are ambiguous ({@code ambiguities[0]}) and those with a close rival ({@code [1]}).
+     */
+    private static int compare(Library library, Candidates candidates, Fixtures.PeakListData list, Row row,
+            int[] ambiguities) {
         PeakList peaks = PeakList.of(list.nm(), list.sigma(), list.photons(), Unit.NANOMETRE, Medium.vacuum());
         IdentificationSearch.Report report = library.search.run(peaks, candidates.catalog());
         Identification id = report.identification();
@@ -237,6 +260,24 @@ class SurveyIdentificationTest {
             String status = id.status(i) == Identification.MATCHED ? "matched"
                     : id.status(i) == Identification.AMBIGUOUS ? "ambiguous" : "unexplained";
             assertEquals(status, p.getString(2), where + " peak " + i);
+            // why it is ambiguous, and its close rival, as the library says
+            java.util.Set<Identification.Ambiguity> why = id.ambiguity(i);
+            String reasons = String.join(";", why.stream().map(Identification.Ambiguity::id).toList());
+            assertEquals(why.isEmpty() ? null : reasons, p.getAs("ambiguity"), where + " peak " + i);
+            ambiguities[0] += why.isEmpty() ? 0 : 1;
+            int rival = id.rival(i);
+            if (rival < 0) {
+                assertTrue(p.isNullAt(9) && p.isNullAt(10) && p.isNullAt(11) && p.isNullAt(12), where + " peak " + i);
+            } else {
+                ambiguities[1]++;
+                double[] at = new double[1];
+                SpectralArrays.convert(new double[] {id.rivalPosition(i)}, Unit.METRE, Medium.vacuum(),
+                        Unit.NANOMETRE, Medium.vacuum(), at);
+                assertEquals(lines.species(rival).notation(), p.getAs("rival_species"));
+                assertEquals(lines.label(rival), p.getAs("rival_line"));
+                assertEquals(at[0], p.getDouble(11), where + " peak " + i);
+                assertEquals(id.rivalOdds(i), p.getDouble(12), where + " peak " + i);
+            }
             if (j < 0) {
                 assertTrue(p.isNullAt(3) && p.isNullAt(5) && p.isNullAt(7), where + " peak " + i);
                 continue;

@@ -6,7 +6,8 @@ import org.ritzwerk.atom.Species;
 
 /**
  * The result of {@link Identifier#identify}: per peak (in the peaks' order) the status, the line
- * it is matched to, the residual and the cost, the runner-up line; and the summaries a report
+ * it is matched to, the residual and the cost, the runner-up line, why an ambiguous peak is
+ * ambiguous and the line it is weighed against; and the summaries a report
  * needs: unexplained peaks, strong lines that are missing, and the presence of each species.
  * Immutable and thread-safe.
  */
@@ -25,7 +26,8 @@ public final class Identification {
      * not show its strong lines in the peaks' range beyond chance ({@link #speciesNotShown}: none
      * of them explains a peak, or no more than chance gives and fewer than a present species
      * would show), so that a line from outside the catalogue is as likely an explanation
-     * ({@link #speciesPresence} counts those strong lines).
+     * ({@link #speciesPresence} counts those strong lines); or a stray peak explains it about as
+     * well ({@link #mayBeStray}). {@link #ambiguity} says which of these flag a peak.
      */
     public static final byte AMBIGUOUS = 2;
 
@@ -43,6 +45,10 @@ public final class Identification {
     /** The stray density, worked out once ({@link #strayDensity}); NaN until then. */
     private volatile double strayDensity = Double.NaN;
     private final boolean[] used;
+    /** The rival line plus one where the peak is ambiguous by the odds, else 0 ({@link #rival}). */
+    private final int[] rivalPlusOne;
+    /** ln of the odds against the rival where the peak is ambiguous by the odds, else 0. */
+    private final double[] rivalLogOdds;
     private final int greedyComponents;
     private final double strongLine;
     private final Tolerance tolerance;
@@ -56,21 +62,22 @@ public final class Identification {
     private final double searchRelativeSpan;
     private final double searchSpan;
 
-    Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
-            int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
-            Identifier.IntensityTerm intensityTerm, double logOdds) {
-        this(peaks, lines, linePlusOne, used, greedyComponents, strongLine, tolerance, strengthWeight, intensityTerm,
-                logOdds, 0, 0);
+    Identification(PeakList peaks, LineCatalog lines, Identifier.Results results, double strongLine,
+            Tolerance tolerance, double strengthWeight, Identifier.IntensityTerm intensityTerm, double logOdds) {
+        this(peaks, lines, results.linePlusOne, results.used, results.rivalPlusOne, results.rivalLogOdds,
+                results.greedy.get(), strongLine, tolerance, strengthWeight, intensityTerm, logOdds, 0, 0);
     }
 
-    private Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used,
-            int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
+    private Identification(PeakList peaks, LineCatalog lines, int[] linePlusOne, boolean[] used, int[] rivalPlusOne,
+            double[] rivalLogOdds, int greedyComponents, double strongLine, Tolerance tolerance, double strengthWeight,
             Identifier.IntensityTerm intensityTerm, double logOdds, double searchRelativeSpan, double searchSpan) {
         this.logOdds = logOdds;
         this.peaks = peaks;
         this.lines = lines;
         this.linePlusOne = linePlusOne;
         this.used = used;
+        this.rivalPlusOne = rivalPlusOne;
+        this.rivalLogOdds = rivalLogOdds;
         this.greedyComponents = greedyComponents;
         this.strongLine = strongLine;
         this.tolerance = tolerance;
@@ -89,8 +96,8 @@ public final class Identification {
      *         {@link #speciesPresence}), the relative span taken at the peaks' middle
      */
     Identification searchedOver(double relativeSpan, double span) {
-        return new Identification(peaks, lines, linePlusOne, used, greedyComponents, strongLine, tolerance,
-                strengthWeight, intensityTerm, logOdds, relativeSpan, span);
+        return new Identification(peaks, lines, linePlusOne, used, rivalPlusOne, rivalLogOdds, greedyComponents,
+                strongLine, tolerance, strengthWeight, intensityTerm, logOdds, relativeSpan, span);
     }
 
     /**
@@ -152,6 +159,106 @@ public final class Identification {
         int v = linePlusOne[i];
         return v == 0 ? UNEXPLAINED : v > 0 && !presence().notShown[lines.speciesIndex(v - 1)] && !mayBeStray(i)
                 ? MATCHED : AMBIGUOUS;
+    }
+
+    /**
+     * Why a peak is {@link #AMBIGUOUS}: the three rules, any of which flags a matched peak
+     * ({@link #ambiguity}). Each has a stable {@link #id()} for files and a few words for tables.
+     */
+    public enum Ambiguity {
+        /**
+         * Another line explains the peak about as well: the best assignment in which the peak
+         * explains a different line ({@link #rival}) has posterior odds within the identifier's
+         * threshold of the chosen one ({@link #rivalOdds}). More or better peaks of either line,
+         * smaller uncertainties or an excitation temperature can settle it.
+         */
+        CLOSE_RIVAL("close_rival", "close rival"),
+        /**
+         * The line's species does not show its strong lines in the peaks' range beyond chance
+         * ({@link #speciesNotShown}): the peak may come from something not offered. Look for the
+         * species' strong lines ({@link #missingStrongLines}), or offer the gas that may be there.
+         */
+        SPECIES_NOT_SHOWN("species_not_shown", "species not shown"),
+        /**
+         * A stray peak explains the peak about as well as its line ({@link #mayBeStray}): it lies
+         * far from its line for its uncertainty, among unexplained peaks.
+         */
+        MAY_BE_STRAY("may_be_stray", "may be stray");
+
+        private final String id;
+        private final String words;
+
+        Ambiguity(String id, String words) {
+            this.id = id;
+            this.words = words;
+        }
+
+        /** @return the stable identifier, e.g. {@code close_rival} */
+        public String id() {
+            return id;
+        }
+
+        /** @return a few words for a table, e.g. {@code close rival} */
+        public String words() {
+            return words;
+        }
+    }
+
+    /**
+     * @param i peak index
+     * @return why the peak is {@link #AMBIGUOUS}: every rule that flags it, in the order of
+     *         {@link Ambiguity}; empty exactly when it is not ambiguous (a new set each call)
+     */
+    public java.util.Set<Ambiguity> ambiguity(int i) {
+        java.util.EnumSet<Ambiguity> why = java.util.EnumSet.noneOf(Ambiguity.class);
+        if (linePlusOne[i] < 0) {
+            why.add(Ambiguity.CLOSE_RIVAL);
+        }
+        if (speciesNotShown(i)) {
+            why.add(Ambiguity.SPECIES_NOT_SHOWN);
+        }
+        if (mayBeStray(i)) {
+            why.add(Ambiguity.MAY_BE_STRAY);
+        }
+        return why;
+    }
+
+    /**
+     * The line a peak that is ambiguous by the odds ({@link Ambiguity#CLOSE_RIVAL}) explains in
+     * the best assignment in which it explains a different line: the assignment its odds are
+     * weighed against (see {@link Identifier}). For a peak alone among its candidates this is
+     * its cheapest other candidate ({@link #runnerUp}); where other peaks compete for the same
+     * lines it is the line the peak takes when the group is solved again with the peak barred
+     * from its own, which may be another.
+     *
+     * @param i peak index
+     * @return the rival line's index in {@link #lines()}, or -1 when the peak is not ambiguous by
+     *         the odds
+     */
+    public int rival(int i) {
+        return rivalPlusOne[i] - 1;
+    }
+
+    /**
+     * @param i peak index
+     * @return the posterior odds of the peak's assignment against its {@link #rival}'s
+     *         (exp of their cost difference, below the identifier's threshold), NaN when the peak
+     *         is not ambiguous by the odds
+     */
+    public double rivalOdds(int i) {
+        return rivalPlusOne[i] == 0 ? Double.NaN : Math.exp(rivalLogOdds[i]);
+    }
+
+    /**
+     * @param i peak index
+     * @return where the {@link #rival} line is seen, vacuum, metres: its wavelength, or for a
+     *         blend with declared components the nearest of its centroid and components to the
+     *         peak, as {@link #matchedPosition}; NaN when the peak has no rival
+     */
+    public double rivalPosition(int i) {
+        int j = rival(i);
+        return j < 0 ? Double.NaN : lines.nearestPosition(j, peaks.wavelength(i),
+                tolerance.halfWidth(peaks.wavelength(i), peaks.sigma(i), lines.sigma(j)));
     }
 
     /**

@@ -72,7 +72,9 @@ import java.util.Objects;
  * proportion to their strength, as S^0.3, or alike). A peak alone in its component compares its two cheapest
  * candidates; otherwise the component is solved again with the peak barred from its line,
  * except where a bound settles it (no other peak wants the line: the alternative costs at
- * least the peak's own cost difference). A peak that has no other candidate is never
+ * least the peak's own cost difference). The line the peak explains in that other assignment
+ * and the odds are kept for the peaks they flag ({@link Identification#rival},
+ * {@link Identification#rivalOdds}). A peak that has no other candidate is never
  * ambiguous; which of several peaks a line belongs to is not ambiguity (the others are left
  * unexplained). The catalogue holds only the species offered, so a peak from anything else (a
  * foreign gas, an impurity) takes the nearest line it finds: a peak matched to a line of a
@@ -214,8 +216,7 @@ public final class Identifier {
             results = new Results(peaks.size(), lines.size());
             run(peaks, lines, order, results, 0, peaks.size(), term);
         }
-        return new Identification(peaks, lines, results.linePlusOne, results.used,
-                results.greedy.get(), strongLine, tolerance, strengthWeight, term, logOdds);
+        return new Identification(peaks, lines, results, strongLine, tolerance, strengthWeight, term, logOdds);
     }
 
     /**
@@ -316,8 +317,7 @@ public final class Identifier {
             java.util.stream.IntStream.range(0, cuts.size() - 1).parallel()
                     .forEach(c -> run(peaks, lines, order, results, cuts.get(c), cuts.get(c + 1), term));
         }
-        return new Identification(peaks, lines, results.linePlusOne, results.used,
-                results.greedy.get(), strongLine, tolerance, strengthWeight, term, logOdds);
+        return new Identification(peaks, lines, results, strongLine, tolerance, strengthWeight, term, logOdds);
     }
 
     /**
@@ -453,15 +453,17 @@ public final class Identifier {
                     best = q;
                 }
             }
+            int runnerUp = -1;
             double second = Double.POSITIVE_INFINITY;
             for (int q = 0; q < c.size; q++) {
-                if (q != best) {
-                    second = Math.min(second, c.cost[q]);
+                if (q != best && c.cost[q] < second) {
+                    second = c.cost[q];
+                    runnerUp = c.line[q];
                 }
             }
             int j = c.line[best];
             results.used[j] = true;
-            results.linePlusOne[i] = second - c.cost[best] < logOdds ? -(j + 1) : j + 1;
+            results.write(i, j, runnerUp, second - c.cost[best], logOdds);
             c.clear();
             return;
         }
@@ -507,25 +509,44 @@ public final class Identifier {
                 continue;
             }
             results.used[j] = true;
-            results.linePlusOne[i] = c.logOddsAgainstRunnerUp(p, j, chosen, optimum, logOdds) < logOdds
-                    ? -(j + 1) : j + 1;
+            double odds = c.logOddsAgainstRunnerUp(p, j, chosen, optimum, logOdds);
+            results.write(i, j, c.rival, odds, logOdds);
         }
         c.clear();
     }
 
     /**
-     * The output columns, in the peaks' order: four bytes a peak, and nothing written for an
-     * unexplained peak: the line plus one (0 for none), negative when the match is ambiguous.
-     * Residuals, costs and runners-up are derived on request.
+     * The output columns, in the peaks' order, and nothing written for an unexplained peak: the
+     * line plus one (0 for none), negative when the match is ambiguous by the posterior odds; and
+     * for such a peak its rival (the line it explains in the best other assignment) plus one and
+     * the log odds against it (16 bytes a peak in all). Residuals, costs and the cheapest other
+     * candidates are derived on request.
      */
-    private static final class Results {
+    static final class Results {
         final int[] linePlusOne;
         final boolean[] used;
+        /** The rival line plus one where the peak is ambiguous by the odds, else 0. */
+        final int[] rivalPlusOne;
+        /** ln of the odds against the rival where the peak is ambiguous by the odds, else 0. */
+        final double[] rivalLogOdds;
         final java.util.concurrent.atomic.AtomicInteger greedy = new java.util.concurrent.atomic.AtomicInteger();
 
         Results(int n, int m) {
             linePlusOne = new int[n];
             used = new boolean[m];
+            rivalPlusOne = new int[n];
+            rivalLogOdds = new double[n];
+        }
+
+        /**
+         * Writes peak i's line j: ambiguous, with its rival and log odds kept, when the odds
+         * against the rival are below the threshold.
+         */
+        void write(int i, int j, int rival, double odds, double threshold) {
+            boolean ambiguous = odds < threshold;
+            linePlusOne[i] = ambiguous ? -(j + 1) : j + 1;
+            rivalPlusOne[i] = ambiguous ? rival + 1 : 0;
+            rivalLogOdds[i] = ambiguous ? odds : 0;
         }
 
         void unexplained(int i) {
@@ -704,8 +725,8 @@ public final class Identifier {
                 double bAlternative = first[b] + (b == best1 ? (next1 < 0 ? Double.POSITIVE_INFINITY : second[next1])
                         : second[best1]);
                 double optimum = first[a] + second[b];
-                write(results, order, a, minLine, aAlternative - optimum < logOdds);
-                write(results, order, b, maxLine, bAlternative - optimum < logOdds);
+                write(results, order, a, minLine, maxLine, aAlternative - optimum, logOdds);
+                write(results, order, b, maxLine, minLine, bAlternative - optimum, logOdds);
                 return;
             }
             // One match: the cheapest candidate of any peak; its runner-up is its other line.
@@ -717,14 +738,14 @@ public final class Identifier {
             }
             double own = onFirst ? first[p] : second[p];
             double other = onFirst ? second[p] : first[p];
-            write(results, order, p, onFirst ? minLine : maxLine, other - own < logOdds);
+            write(results, order, p, onFirst ? minLine : maxLine, onFirst ? maxLine : minLine, other - own, logOdds);
         }
 
-        private void write(Results results, int[] order, int p, int j, boolean ambiguous) {
+        private void write(Results results, int[] order, int p, int j, int rival, double odds, double threshold) {
             int k = peakOrder[p];
             int i = order == null ? k : order[k];
             results.used[j] = true;
-            results.linePlusOne[i] = ambiguous ? -(j + 1) : j + 1;
+            results.write(i, j, rival, odds, threshold);
         }
 
         private int[] cheapestSingle = new int[16];
@@ -1007,9 +1028,11 @@ public final class Identifier {
          * @param optimum its objective
          * @param enough  log odds above which the exact value is not needed
          * @return the log odds, +infinity when p has no other line it could explain with as many
-         *         peaks matched
+         *         peaks matched; the line p explains in that other assignment is left in
+         *         {@link #rival} (-1 when none)
          */
         double logOddsAgainstRunnerUp(int p, int j, int[] chosen, double optimum, double enough) {
+            rival = -1;
             double local = Double.POSITIVE_INFINITY;
             int localLine = -1;
             double own = cost[candidate(p, j)];
@@ -1031,6 +1054,7 @@ public final class Identifier {
                 // every alternative costs at least its own difference, and exactly that when j'
                 // was free.
                 if (local >= enough || !usedByOthers(localLine, p, chosen)) {
+                    rival = localLine;
                     return local;
                 }
             }
@@ -1045,9 +1069,13 @@ public final class Identifier {
             }
             solve(true);
             double alternative = objective() + (this.chosen[p] >= 0 ? 2 * UNMATCHED : 0);
+            rival = this.chosen[p];
             System.arraycopy(savedCost, start[p], cost, start[p], start[p + 1] - start[p]);
             return alternative - optimum;
         }
+
+        /** The line of the last {@link #logOddsAgainstRunnerUp}'s other assignment, or -1. */
+        int rival = -1;
 
         private boolean sharedWithOthers(int p, int j) {
             for (int r = 0; r < peaks; r++) {

@@ -246,6 +246,9 @@ class IdentifierTest {
                 for (int i = 0; i < scene.peaks().size(); i++) {
                     assertEquals(one.line(i), many.line(i));
                     assertEquals(one.status(i), many.status(i));
+                    assertEquals(one.ambiguity(i), many.ambiguity(i));
+                    assertEquals(one.rival(i), many.rival(i));
+                    assertEquals(Double.doubleToLongBits(one.rivalOdds(i)), Double.doubleToLongBits(many.rivalOdds(i)));
                 }
                 assertEquals(java.util.Arrays.toString(one.missingStrongLines()),
                         java.util.Arrays.toString(many.missingStrongLines()));
