@@ -462,7 +462,8 @@ class CalibrateCommandTest {
         assertFalse(Files.exists(out));
         assertEquals(run.out(), CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I",
                 "--uncertainty-ceiling", "1e6").out());
-        CliTest.Run zero = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--uncertainty-ceiling", "0");
+        CliTest.Run zero = CliTest.run("calibrate", spectrum.toString(), "--lamp", "Ne I", "--uncertainty-ceiling",
+                "0");
         assertEquals(2, zero.code());
         assertTrue(zero.err().contains("--uncertainty-ceiling must be a standard uncertainty in pixels above 0"),
                 zero.err());

@@ -128,7 +128,8 @@ class IdentifyCommandTest {
         assertTrue(run.out().matches("(?s).*32 peaks: 0 matched, ([1-9]) ambiguous \\(\\1 of a species not shown beyond"
                 + " chance\\), .*"), run.out());
         // each ambiguous peak says why
-        assertTrue(java.util.regex.Pattern.compile("(?m)^\\d+ +\\d+ +\\S+ +ambiguous .* species not shown(; may be stray)?$")
+        assertTrue(java.util.regex.Pattern
+                .compile("(?m)^\\d+ +\\d+ +\\S+ +ambiguous .* species not shown(; may be stray)?$")
                 .matcher(run.out()).find(), run.out());
         assertFalse(java.util.regex.Pattern.compile("(?m)^\\d+ +\\d+ +\\S+ +ambiguous .* -$").matcher(run.out())
                 .find(), run.out());
