@@ -698,7 +698,13 @@ public final class SurveyIdentification {
                     peakOut.write(6, positions[i] - line);
                     Catalyst.orNull(peakOut, 7, result.normalizedResidual(i, unit));
                 }
-                ambiguity(result, i, lines, notations);
+                if (status == Identification.AMBIGUOUS) {
+                    ambiguity(result, i, lines, notations);
+                } else {
+                    for (int field = 8; field < 13; field++) { // why and the rival: only for an ambiguous peak
+                        peakOut.setNullAt(field);
+                    }
+                }
                 peaksOut.setOffsetAndSizeFromPreviousCursor(i, at);
             }
             out.setOffsetAndSizeFromPreviousCursor(1, start);
