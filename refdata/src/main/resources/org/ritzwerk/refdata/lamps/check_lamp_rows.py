@@ -46,6 +46,8 @@ MIN_DECIMALS = 4
 SEED = 13
 # The table's line remarks, written out in words in the note column (kept when rewriting).
 REMARKS = ("persistent", "complex", "unresolved double", "hazy")
+# Our own remark, kept too: on rows added later whose intensity was not recalled to the table's digits.
+GUESSED = "intensity a rough guess and not from the table"
 
 # Level energies in cm-1, from memory (for Ne I the values of Saloman and Sansonetti, J. Phys.
 # Chem. Ref. Data 33, 1113 (2004); for Ar I the 3p5 4s and 4p levels as tabulated by NIST),
@@ -194,7 +196,7 @@ def main(write):
                     partners, best[0], best[1], distinct, "" if distinct == 1 else "s"))
             if i in memory:
                 checks.append("Ritz wavelength of levels from memory " + memory[i])
-            remarks = [w for w in (row[7].split("; ") if len(row) > 7 else []) if w in REMARKS]
+            remarks = [w for w in (row[7].split("; ") if len(row) > 7 else []) if w in REMARKS + (GUESSED,)]
             flags = "; ".join(remarks)
             if checks:
                 note = ("%s; " % flags if flags else "") + "checked: " + "; ".join(checks)

@@ -24,8 +24,9 @@ import org.ritzwerk.engine.calibrate.Peaks;
  * anywhere between its first and last fitted line; the job refuses instead. An accepted run off
  * by more than 0.1 pixel must say so: its error stays within five of the solution's own stated
  * standard uncertainties. The share solved to
- * better than 0.1 pixel is held at what the matcher reaches today: 24 of these 30 (23 before the
- * second-order images, 25 before the chance test counted the four pairs a cubic meets by itself). Full sweeps
+ * better than 0.1 pixel is held at what the matcher reaches today: 46 of seeds 1 to 60 on the
+ * exposures of 2026-12-05 (below); before them 24 of seeds 1 to 30 (23 before the second-order
+ * images, 25 before the chance test counted the four pairs a cubic meets by itself). Full sweeps
  * (run {@link CalibrationSweep#main} with {@code 1 100 0.6}, {@code 101 100 0.6}, ...), solved /
  * refused / accepted with 0.1 to 1 pixel error (a blended or edge line pulling the cubic) / worse:
  * seeds 1 to 100 84 / 7 / 9 / 0, seeds 101 to 200 85 / 4 / 11 / 0, 201 to 300 72 / 9 / 19 / 0,
@@ -69,20 +70,35 @@ import org.ritzwerk.engine.calibrate.Peaks;
  * probability times the 520 to 4809 pairings tried exceeds 0.01),
  * 3 find only 3 peaks, 5 find no pairing of 4 or more (4 to 11 peaks), 1 fails the final fit's
  * chi-square.
+ *
+ * <p>The figures above are of the exposures before 2026-12-05. Then the lamp sets gained 19 rows
+ * (Ne I 594.5-808.2 nm, Hg I 275.3, 289.4 and 334.1 nm, Xe I 452.5-992.3 nm) and each lamp line's
+ * scatter and dropout got its own stream (seed, wavelength), which changed every exposure. Seeds 1
+ * to 400 (CalibrationSweep's main, {@code 1 400 0.6}): 313 solved / 27 refused / 60 accepted 0.1 to
+ * 1 pixel off / 0 worse; by hundreds 80 / 9 / 11 / 0, 86 / 4 / 10 / 0, 82 / 6 / 12 / 0, 65 / 8 / 27 / 0.
+ * Coverage 0.776 within one stated standard uncertainty, 0.977 within two; 7 runs beyond three
+ * somewhere. The worst is seed 367 (Hg+Kr, 1024 pixels): its last fitted line, Hg 334.148 nm (S/N
+ * 117), has a foreign line 0.89 pixel away that pulls the centroid 0.68 pixel, 25 of its statistical
+ * standard uncertainties, unflagged; the run is accepted 0.68 pixel off there while stating 0.09
+ * pixel (25 stated uncertainties). Every exposure against the wrong gases is refused (341 of 341).
+ * Seeds 1 to 30 alone now give coverage 0.807 / 0.997, more cautious than the test's band in so few
+ * runs; seeds 1 to 60 give 0.817 / 0.985, so the test below runs 60.
  */
 class CalibrationSweepTest {
 
     @Test
     void curvedDispersionsAreSolvedOrRefusedNeverWrong() {
-        CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6, Calibrator.defaults());
+        // Seeds 1 to 60 since the exposures of 2026-12-05: 46 solved, 8 refused, 6 accepted 0.1 to 1 pixel
+        // off (at most 2.9 stated standard uncertainties), none worse.
+        CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 60, 0.6, Calibrator.defaults());
         assertEquals(0, outcome.wrong(), outcome.toString());
-        assertTrue(outcome.solved() >= 24, outcome.toString());
+        assertTrue(outcome.solved() >= 46, outcome.toString());
         // Where a solution is off by 0.1 to 1 pixel, it says so: the error stays within five of its
         // own stated standard uncertainties.
         assertTrue(outcome.worstImpreciseSigmas() <= 5, outcome.toString());
         // The stated uncertainty is a standard uncertainty, neither too small nor much too large:
-        // at 201 pixels of every accepted run, the error is within two of it at 0.957 of them
-        // (0.954 for Gaussian errors).
+        // at 201 pixels of every accepted run, the error is within two of it at 0.985 of them in seeds
+        // 1 to 60 (0.954 for Gaussian errors), within one at 0.817 (0.683).
         assertTrue(outcome.within2Sigma() >= 0.9 && outcome.within2Sigma() <= 0.99, outcome.toString());
         assertTrue(outcome.within1Sigma() >= 0.6 && outcome.within1Sigma() <= 0.85, outcome.toString());
     }
@@ -101,13 +117,21 @@ class CalibrationSweepTest {
      * is solved as before. Since growth leaves a peak alone when a second-order image lies much
      * nearer to it than the lamp line it would take (LampMatcher.IMAGE_PREFERENCE), fewer pairings
      * are tried and seed 94 is solved with images too.
+     *
+     * <p>The exposures of 2026-12-05 no longer show such a pair in these seeds, and no other seed was
+     * found that does (the check leaves no trace in a finished calibration): seed 94 (Hg+Kr, 795.9 to
+     * 990.0 nm) has no foreign line now, seed 163 (Ne, 457.7 to 682.9 nm, falling) none near the end of
+     * its pairs; both are solved. Seed 223 (Hg+Ne, 470.0 to 603.8 nm, falling) is now accepted 0.37
+     * pixel off, within 1.5 of its stated uncertainties, where it was refused; that is what is held
+     * for it here.
      */
     @Test
     void aLoneEndPairTheOthersDoNotConfirmIsDropped() {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(163, 1, 0.6, Calibrator.defaults());
         assertEquals(1, outcome.solved(), outcome.toString());
         outcome = CalibrationSweep.run(223, 1, 0.6, Calibrator.defaults());
-        assertEquals(1, outcome.refused(), outcome.toString());
+        assertEquals(1, outcome.imprecise(), outcome.toString());
+        assertTrue(outcome.worstImpreciseSigmas() < 2, outcome.toString());
         for (Calibrator settings : new Calibrator[] {Calibrator.defaults(),
             Calibrator.defaults().withSecondOrder(false)}) {
             outcome = CalibrationSweep.run(94, 1, 0.6, settings);
@@ -141,10 +165,18 @@ class CalibrationSweepTest {
      * cubic meets by itself, where a quadratic cannot meet them as well (0.042, 0.057 and 0.014
      * expected by chance in all): right pairings, but not told from chance at the 0.01 the test
      * accepts. Seed 253 is solved again since the trials are counted as distinct solutions.
+     *
+     * <p>On the exposures of 2026-12-05 the seeds above are no longer such cases. Over seeds 1 to 400,
+     * three runs are solved with images and not without them: seed 104 (Hg+Kr, 1024 pixels, 773.7 to
+     * 990.0 nm, 11 ghosts; refused without images, too small a share of its strongest peaks paired),
+     * seed 217 (Hg+Ar, 2048 pixels, 255.6 to 669.9 nm, 9 ghosts; without images accepted 1.6 pixels
+     * off, the ghosts taken for lamp lines, which is why a spectrometer without an order-sorting filter
+     * must keep images on) and seed 222 (Hg+Kr, 2048 pixels, 767.3 to 896.2 nm, 10 ghosts; without
+     * images accepted 0.28 pixel off).
      */
     @Test
     void secondOrderGhostsAreExplainedByTheLamp() {
-        for (long seed : new long[] {24, 62, 107, 373}) {
+        for (long seed : new long[] {104, 217, 222}) {
             CalibrationSweep.Outcome outcome = CalibrationSweep.run(seed, 1, 0.6, Calibrator.defaults());
             assertEquals(1, outcome.solved(), outcome.toString());
             CalibrationSweep.Outcome firstOrderOnly = CalibrationSweep.run(seed, 1, 0.6,
@@ -215,18 +247,18 @@ class CalibrationSweepTest {
     }
 
     /**
-     * The centroids pulled by 3 to 6 of their standard uncertainties in seeds 9 and 32 lie under
-     * foreign lines no profile test can separate, so they stay unflagged: seed 9's Kr 877.675 nm
-     * (S/N 400) has a foreign line 1.55 pixels away with about 5 % of its flux, which moves the
-     * centroid 0.076 pixel and widens the profile by 1.8 of its width uncertainties; seed 32's
-     * Ne 585.249 and 914.867 nm have foreign lines 0.35 and 0.45 pixel away (a seventh of the
-     * FWHM). Seed 139's worst pair (Ar 696.543 nm, 2.8 standard uncertainties off) has no other
-     * line within 8 pixels: a fluctuation of the noise, not a blend.
+     * Centroids pulled by several of their standard uncertainties lie under foreign lines no profile
+     * test can separate, so they stay unflagged. On the exposures of 2026-12-05: seed 18's Ne
+     * 920.176 nm (S/N 88) is pulled 0.10 pixel (4.4 standard uncertainties) by a foreign line 0.12
+     * pixel away; seed 48's Ne 702.405 nm (S/N 132) 0.07 pixel (3.5) by one 0.16 pixel away; seed 13's
+     * weak Kr 769.454 nm (S/N 9) 1.5 pixels (9.7) by one 1.54 pixels away. (Before, seeds 9 and 32:
+     * Kr 877.675 nm with a foreign line 1.55 pixels away, Ne 585.249 and 914.867 nm with foreign
+     * lines 0.35 and 0.45 pixel away.)
      */
     @Test
-    void theCentroidsPulledInSeeds9And32LieUnderForeignLinesTooCloseToSee() {
+    void theCentroidsPulledInSeeds13And18And48LieUnderForeignLinesTooCloseToSee() {
         LampExposures exposures = new LampExposures();
-        Object[][] cases = {{9L, 877.6751, 1.6}, {32L, 585.24879, 0.5}, {32L, 914.86716, 0.5}};
+        Object[][] cases = {{13L, 769.45401, 1.6}, {18L, 920.17591, 0.5}, {48L, 702.40504, 0.5}};
         for (Object[] c : cases) {
             LampExposures.Exposure exposure = exposures.exposure((Long) c[0], 0.6);
             Calibration calibration = settings(exposure).calibrate(CalibrationProblem.builder(exposure.counts())
@@ -296,10 +328,13 @@ class CalibrationSweepTest {
     }
 
     /**
-     * The imprecise runs are those whose data cannot give 0.1 pixel, and the solution says so: in
-     * seeds 1-400, 48 of the 51 have a stated standard uncertainty of at least 0.05 pixel (median
-     * 0.10) where their error is largest. A caller who needs 0.1 pixel requires 0.05 and gets a
-     * refusal there instead (seeds 1-400: 204 solved, 193 refused, 3 imprecise at 0.12 to 0.16
+     * The imprecise runs are those whose data cannot give 0.1 pixel, and the solution says so. On
+     * the exposures of 2026-12-05, in seeds 1-400 59 of the 60 have a stated standard uncertainty of at
+     * least 0.05 pixel where their error is largest (median 0.13); with a required 0.05 pixel: 137
+     * solved, 262 refused, 1 imprecise (0.102 pixel off, stating 0.043), none wrong; without it 313,
+     * 27, 60 and 0. Before, in seeds 1-400, 48 of the 51 had a stated standard uncertainty of at
+     * least 0.05 pixel (median 0.10) where their error is largest. A caller who needs 0.1 pixel
+     * requires 0.05 and gets a refusal there instead (seeds 1-400: 204 solved, 193 refused, 3 imprecise at 0.12 to 0.16
      * pixel, none wrong; without the requirement 328, 21, 51 and 0). With the end check and the
      * next degree's widening of a quadratic or straight line (DispersionFit): 188 solved, 210
      * refused, 2 imprecise, none wrong. With the automatic degree up to 5 (328, 25, 47 and 0
@@ -311,14 +346,15 @@ class CalibrationSweepTest {
      */
     @Test
     void aRequiredPrecisionRefusesWhatTheDataCannotGive() {
-        // Seed 257 (accepted 0.65 pixel off near its first line) states 0.44 pixel there.
-        LampExposures.Exposure exposure = new LampExposures().exposure(257, 0.6);
+        // Seed 125 (Hg+Kr, 1024 pixels; accepted 0.48 pixel off at its first line) states 0.61 pixel
+        // there. (Seed 257, 0.65 pixel off and stating 0.44, before the exposures of 2026-12-05.)
+        LampExposures.Exposure exposure = new LampExposures().exposure(125, 0.6);
         CalibrationProblem problem = CalibrationProblem.builder(exposure.counts()).lamp(exposure.lamp()).build();
         Calibrator settings = Double.isNaN(exposure.saturation()) ? Calibrator.defaults()
                 : Calibrator.defaults().withSaturationLevel(exposure.saturation());
         Calibration accepted = settings.calibrate(problem);
         assertTrue(accepted.largestSigmaPixels() > 0.4, "stated " + accepted.largestSigmaPixels());
-        assertTrue(CalibrationSweep.largestError(exposure, accepted.solution(), accepted) > 0.5);
+        assertTrue(CalibrationSweep.largestError(exposure, accepted.solution(), accepted) > 0.4);
         CalibrationException refused = assertThrows(CalibrationException.class,
                 () -> settings.withRequiredPrecision(0.05).calibrate(problem));
         assertEquals(CalibrationException.IMPRECISE, refused.code());
@@ -330,11 +366,11 @@ class CalibrationSweepTest {
         CalibrationSweep.Outcome outcome = CalibrationSweep.run(1, 30, 0.6,
                 Calibrator.defaults().withRequiredPrecision(0.05));
         assertEquals(0, outcome.wrong() + outcome.imprecise(), outcome.toString());
-        // 12 solved (16 before the end check, which also refuses seed 1: its last line is checked by
-        // the others only to 0.63 pixel; 15 before a quadratic's stated uncertainty took in what
+        // 14 solved on the exposures of 2026-12-05; before them 12 (16 before the end check, which also
+        // refuses seed 1: its last line is checked by the others only to 0.63 pixel; 15 before a quadratic's stated uncertainty took in what
         // the next degree leaves open, which states seed 24's right quadratic at 0.17 pixel; 14
         // before a cubic's took in the next degree's Akaike weight between the lines).
-        assertTrue(outcome.solved() >= 12, outcome.toString());
+        assertTrue(outcome.solved() >= 14, outcome.toString());
     }
 
     @Test

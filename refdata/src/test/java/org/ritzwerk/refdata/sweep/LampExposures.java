@@ -124,8 +124,13 @@ public final class LampExposures {
         double[] tableNm = lamp.lines().wavelengths();
         List<double[]> lines = new ArrayList<>(); // {nm, relative flux}
         for (int i = 0; i < tableNm.length; i++) {
-            double rel = lamp.lines().intensity(i) * Math.exp(0.7 * gaussian(random));
-            if (tableNm[i] > start - 1 && tableNm[i] < end + 1 && random.nextDouble() >= 0.1) {
+            // Each line's scatter and whether it is missing come from a stream of its own (the run's
+            // seed and the line's wavelength), so that a row added to a lamp set changes no other
+            // line's draw and no later draw of the run.
+            long key = seed * 0x9E3779B97F4A7C15L ^ Double.doubleToLongBits(tableNm[i]);
+            SplittableRandom own = new SplittableRandom(key);
+            double rel = lamp.lines().intensity(i) * Math.exp(0.7 * gaussian(own));
+            if (tableNm[i] > start - 1 && tableNm[i] < end + 1 && own.nextDouble() >= 0.1) {
                 lines.add(new double[] {tableNm[i], rel});
             }
         }
