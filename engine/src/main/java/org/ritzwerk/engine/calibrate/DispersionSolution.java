@@ -34,10 +34,10 @@ import org.ritzwerk.medium.Medium;
  * pairs for a low degree. It is a cautious bound rather than a calibrated standard uncertainty:
  * in refdata's seeded lamp sweep (ExtrapolationCoverageTest) 93 % of the extrapolated errors lie
  * within one stated uncertainty (94 % on the sweep's exposures before 2026-12-05), where 68 % would
- * be exact, and all but 0.13 % within three; with the covariance alone 67 % lay within one, and a straight line fitted over pixels
- * 421 to 692 of 1024 was 5.6 pixels off at pixel 0 while stating 0.17 (now 4.7). Where the pairs
- * do not determine a higher degree with a degree of freedom to spare, and for stored coefficients
- * without it, only the covariance is used.
+ * be exact, and all but 0.13 % within three; with the covariance alone 67 % lay within one, and a
+ * straight line fitted over pixels 421 to 692 of 1024 was 5.6 pixels off at pixel 0 while stating
+ * 0.17 (now 4.7). Where the pairs do not determine a higher degree with a degree of freedom to
+ * spare, and for stored coefficients without it, only the covariance is used.
  *
  * <p><b>The choice of degree, between the lines.</b> When the degree d was chosen automatically
  * (from the usual cubic up, or at the highest degree allowed) and the next degree has some support

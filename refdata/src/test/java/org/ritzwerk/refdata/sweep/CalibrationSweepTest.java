@@ -368,8 +368,9 @@ class CalibrationSweepTest {
         assertEquals(0, outcome.wrong() + outcome.imprecise(), outcome.toString());
         // 14 solved on the exposures of 2026-12-05; before them 12 (16 before the end check, which
         // also refuses seed 1: its last line is checked by the others only to 0.63 pixel; 15 before a
-        // quadratic's stated uncertainty took in what the next degree leaves open, which states seed 24's right quadratic at 0.17 pixel; 14
-        // before a cubic's took in the next degree's Akaike weight between the lines).
+        // quadratic's stated uncertainty took in what the next degree leaves open, which states
+        // seed 24's right quadratic at 0.17 pixel; 14 before a cubic's took in the next degree's
+        // Akaike weight between the lines).
         assertTrue(outcome.solved() >= 14, outcome.toString());
     }
 
