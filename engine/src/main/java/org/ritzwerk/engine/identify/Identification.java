@@ -45,9 +45,12 @@ public final class Identification {
     /** The stray density, worked out once ({@link #strayDensity}); NaN until then. */
     private volatile double strayDensity = Double.NaN;
     private final boolean[] used;
-    /** The rival line plus one where the peak is ambiguous by the odds, else 0 ({@link #rival}). */
+    /**
+     * The rival line plus one where the peak is ambiguous by the odds, else 0 ({@link #rival});
+     * null when no peak is.
+     */
     private final int[] rivalPlusOne;
-    /** ln of the odds against the rival where the peak is ambiguous by the odds, else 0. */
+    /** ln of the odds against the rival where the peak is ambiguous by the odds, else 0; null as above. */
     private final double[] rivalLogOdds;
     private final int greedyComponents;
     private final double strongLine;
@@ -64,7 +67,7 @@ public final class Identification {
 
     Identification(PeakList peaks, LineCatalog lines, Identifier.Results results, double strongLine,
             Tolerance tolerance, double strengthWeight, Identifier.IntensityTerm intensityTerm, double logOdds) {
-        this(peaks, lines, results.linePlusOne, results.used, results.rivalPlusOne, results.rivalLogOdds,
+        this(peaks, lines, results.linePlusOne, results.used, results.rivalPlusOne(), results.rivalLogOdds(),
                 results.greedy.get(), strongLine, tolerance, strengthWeight, intensityTerm, logOdds, 0, 0);
     }
 
@@ -236,7 +239,8 @@ public final class Identification {
      *         the odds
      */
     public int rival(int i) {
-        return rivalPlusOne[i] - 1;
+        java.util.Objects.checkIndex(i, linePlusOne.length);
+        return rivalPlusOne == null ? -1 : rivalPlusOne[i] - 1;
     }
 
     /**
@@ -246,7 +250,8 @@ public final class Identification {
      *         is not ambiguous by the odds
      */
     public double rivalOdds(int i) {
-        return rivalPlusOne[i] == 0 ? Double.NaN : Math.exp(rivalLogOdds[i]);
+        java.util.Objects.checkIndex(i, linePlusOne.length);
+        return rivalPlusOne == null || rivalPlusOne[i] == 0 ? Double.NaN : Math.exp(rivalLogOdds[i]);
     }
 
     /**

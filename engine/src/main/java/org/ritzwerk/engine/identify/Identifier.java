@@ -519,23 +519,28 @@ public final class Identifier {
      * The output columns, in the peaks' order, and nothing written for an unexplained peak: the
      * line plus one (0 for none), negative when the match is ambiguous by the posterior odds; and
      * for such a peak its rival (the line it explains in the best other assignment) plus one and
-     * the log odds against it (16 bytes a peak in all). Residuals, costs and the cheapest other
-     * candidates are derived on request.
+     * the log odds against it, in two columns made at the first such peak (most scenes have few or
+     * none, so that four bytes a peak remain the rule; 16 with them). Residuals, costs and the
+     * cheapest other candidates are derived on request.
      */
     static final class Results {
         final int[] linePlusOne;
         final boolean[] used;
-        /** The rival line plus one where the peak is ambiguous by the odds, else 0. */
-        final int[] rivalPlusOne;
-        /** ln of the odds against the rival where the peak is ambiguous by the odds, else 0. */
-        final double[] rivalLogOdds;
         final java.util.concurrent.atomic.AtomicInteger greedy = new java.util.concurrent.atomic.AtomicInteger();
+        private final int n;
+        /**
+         * The rival line plus one where the peak is ambiguous by the odds, else 0; null until the
+         * first such peak. Written last when made, so that a thread that sees it sees
+         * {@link #rivalLogOdds} too (parts of a parallel run write disjoint peaks).
+         */
+        private volatile int[] rivalPlusOne;
+        /** ln of the odds against the rival where the peak is ambiguous by the odds, else 0; as above. */
+        private double[] rivalLogOdds;
 
         Results(int n, int m) {
+            this.n = n;
             linePlusOne = new int[n];
             used = new boolean[m];
-            rivalPlusOne = new int[n];
-            rivalLogOdds = new double[n];
         }
 
         /**
@@ -545,8 +550,36 @@ public final class Identifier {
         void write(int i, int j, int rival, double odds, double threshold) {
             boolean ambiguous = odds < threshold;
             linePlusOne[i] = ambiguous ? -(j + 1) : j + 1;
-            rivalPlusOne[i] = ambiguous ? rival + 1 : 0;
-            rivalLogOdds[i] = ambiguous ? odds : 0;
+            if (ambiguous) {
+                int[] rivals = rivals();
+                rivals[i] = rival + 1;
+                rivalLogOdds[i] = odds;
+            }
+        }
+
+        private int[] rivals() {
+            int[] rivals = rivalPlusOne;
+            if (rivals == null) {
+                synchronized (this) {
+                    rivals = rivalPlusOne;
+                    if (rivals == null) {
+                        rivalLogOdds = new double[n];
+                        rivals = new int[n];
+                        rivalPlusOne = rivals;
+                    }
+                }
+            }
+            return rivals;
+        }
+
+        /** @return the rivals' column, null when no peak is ambiguous by the odds */
+        int[] rivalPlusOne() {
+            return rivalPlusOne;
+        }
+
+        /** @return the log odds' column, null when no peak is ambiguous by the odds */
+        double[] rivalLogOdds() {
+            return rivalLogOdds;
         }
 
         void unexplained(int i) {
