@@ -61,17 +61,8 @@ public final class HyperfineStructure {
      * @throws IllegalArgumentException for an F that I and J cannot make
      */
     public static double shiftHertz(int twoI, int twoJ, int twoF, HyperfineConstants constants) {
-        checkF(twoI, twoJ, twoF);
-        double i = twoI / 2.0;
-        double j = twoJ / 2.0;
-        double f = twoF / 2.0;
-        double k = f * (f + 1) - i * (i + 1) - j * (j + 1);
-        double e = constants.aHertz() * k / 2;
-        if (twoI >= 2 && twoJ >= 2) {
-            e += constants.bHertz() * (1.5 * k * (k + 1) - 2 * i * (i + 1) * j * (j + 1))
-                    / (4 * i * (2 * i - 1) * j * (2 * j - 1));
-        }
-        return e;
+        double[] d = partials(twoI, twoJ, twoF);
+        return constants.aHertz() * d[0] + constants.bHertz() * d[1];
     }
 
     /**
@@ -98,7 +89,7 @@ public final class HyperfineStructure {
         return Math.hypot(a, d[1] * constants.bUncertaintyHertz());
     }
 
-    /** The factors of A and of B in the Casimir formula for this F: {K/2, c_B}. */
+    /** The factors of A and of B in the Casimir formula for this F: {K/2, c_B}, c_B 0 without a quadrupole term. */
     private static double[] partials(int twoI, int twoJ, int twoF) {
         checkF(twoI, twoJ, twoF);
         double i = twoI / 2.0;
