@@ -543,16 +543,11 @@ public final class Calibrator {
     private void checkPrecision(Calibration calibration) {
         double sigma = calibration.largestSigmaPixels();
         if (sigma > ceiling) {
-            double at = calibration.largestSigmaAtPixel();
-            DispersionSolution solution = calibration.solution();
             throw new CalibrationException(CalibrationException.IMPRECISE, String.format(Locale.ROOT,
-                    "%s: the solution (degree %d, %d lines from pixel %.1f to %.1f) states a standard uncertainty of"
-                            + " %.4g pixels (%.3g nm) near pixel %.1f, above the %.4g pixel%s a solution is accepted"
-                            + " with, so its scale may be a pixel or more off there; %s. To take it as it is, raise"
-                            + " the uncertainty ceiling",
-                    calibration.problem().source(), solution.degree(), solution.usedCount(),
-                    calibration.lowestUsedPixel(), calibration.highestUsedPixel(), sigma,
-                    solution.wavelengthSigmaAt(at), at, ceiling, ceiling == 1 ? "" : "s", tighten(calibration, at)));
+                    "%s, above the %.4g pixel%s a solution is accepted with, so its scale may be a pixel or more off"
+                            + " there; %s. To take it as it is, raise the uncertainty ceiling",
+                    largestUncertainty(calibration, "states a standard uncertainty of"), ceiling,
+                    ceiling == 1 ? "" : "s", tighten(calibration, calibration.largestSigmaAtPixel())));
         }
         if (Double.isInfinite(requiredPrecision)) {
             return;
@@ -563,14 +558,10 @@ public final class Calibrator {
                     + String.format(Locale.ROOT, "%.4g", requiredPrecision) + " pixels");
         }
         if (!(sigma <= requiredPrecision)) {
-            double at = calibration.largestSigmaAtPixel();
-            DispersionSolution solution = calibration.solution();
             throw new CalibrationException(CalibrationException.IMPRECISE, String.format(Locale.ROOT,
-                    "%s: the solution (degree %d, %d lines from pixel %.1f to %.1f) has a stated standard uncertainty "
-                            + "of %.4g pixels (%.3g nm) near pixel %.1f, above the required %.4g pixels; %s",
-                    calibration.problem().source(), solution.degree(), solution.usedCount(),
-                    calibration.lowestUsedPixel(), calibration.highestUsedPixel(), sigma,
-                    solution.wavelengthSigmaAt(at), at, requiredPrecision, tighten(calibration, at)));
+                    "%s, above the required %.4g pixels; %s",
+                    largestUncertainty(calibration, "has a stated standard uncertainty of"), requiredPrecision,
+                    tighten(calibration, calibration.largestSigmaAtPixel())));
         }
         // Each outermost line must be checked by the others: a wrong pairing there (a foreign line
         // beside a missing lamp line) would move the solution by its offset and show in no residual.
@@ -592,6 +583,16 @@ public final class Calibrator {
                                 + " check an end)"));
             }
         }
+    }
+
+    /** Where and how large the solution's largest stated uncertainty is, for a refusal's message. */
+    private static String largestUncertainty(Calibration calibration, String verb) {
+        double at = calibration.largestSigmaAtPixel();
+        DispersionSolution solution = calibration.solution();
+        return String.format(Locale.ROOT, "%s: the solution (degree %d, %d lines from pixel %.1f to %.1f) %s %.4g"
+                + " pixels (%.3g nm) near pixel %.1f", calibration.problem().source(), solution.degree(),
+                solution.usedCount(), calibration.lowestUsedPixel(), calibration.highestUsedPixel(), verb,
+                calibration.largestSigmaPixels(), solution.wavelengthSigmaAt(at), at);
     }
 
     /** What would tighten the solution where its stated uncertainty is largest. */
