@@ -732,6 +732,10 @@ public final class Identification {
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
         double trials = shiftsTried(sorted, typicalSigma);
+        // Where the last line's searches ended: the lines come in ascending order, so the next
+        // line's searches start there (Identifier.lowerBound with a guess).
+        int windowStart = 0;
+        int nearStart = 0;
         for (int j = 0; j < lines.size(); j++) {
             int s = lines.speciesIndex(j);
             matched[s] += used[j] ? 1 : 0;
@@ -740,7 +744,8 @@ public final class Identification {
             if (!used[j] && (w < lo - h || w > hi + h)) {
                 continue;
             }
-            double p = chanceRate(sorted, w, h, lines.windowLength(j, h));
+            windowStart = Identifier.lowerBound(sorted, w - h, windowStart);
+            double p = chanceRate(sorted, w, h, lines.windowLength(j, h), windowStart);
             matchedByChance[s] += p;
             allVariance[s] += p * (1 - p);
             allRates[s] = grown(allRates[s], counted[s]);
@@ -749,7 +754,10 @@ public final class Identification {
             if ((w >= lo && w <= hi || used[j]) && lines.strength(j) >= strongLine) {
                 strong[s]++;
                 strongMatched[s] += used[j] ? 1 : 0;
-                strongCovered[s] += used[j] || peakWithin(sorted, j, h) ? 1 : 0;
+                if (!used[j]) {
+                    nearStart = Identifier.lowerBound(sorted, w - h - lines.partsBelow(), nearStart);
+                }
+                strongCovered[s] += used[j] || peakWithin(sorted, j, h, nearStart) ? 1 : 0;
                 strongByChance[s] += p;
                 strongVariance[s] += p * (1 - p);
                 strongRates[s] = grown(strongRates[s], strong[s] - 1);
@@ -795,13 +803,13 @@ public final class Identification {
      * @param sorted the peaks' vacuum wavelengths, ascending, metres
      * @param j      a line
      * @param h      its tolerance half-width as the chance model takes it, metres
+     * @param from   the first peak not below w - h - {@link LineCatalog#partsBelow()}
      * @return whether some peak lies within h of one of the line's positions
      *         ({@link LineCatalog#nearestPosition}), whatever line that peak was assigned to
      */
-    private boolean peakWithin(double[] sorted, int j, double h) {
+    private boolean peakWithin(double[] sorted, int j, double h, int from) {
         double w = lines.wavelength(j);
-        for (int i = Identifier.lowerBound(sorted, w - h - lines.partsBelow());
-                i < sorted.length && sorted[i] <= w + h + lines.partsAbove(); i++) {
+        for (int i = from; i < sorted.length && sorted[i] <= w + h + lines.partsAbove(); i++) {
             if (Math.abs(sorted[i] - lines.nearestPosition(j, sorted[i], h)) <= h) {
                 return true;
             }
@@ -874,9 +882,14 @@ public final class Identification {
      * @return p = 1 - exp(-rho window)
      */
     static double chanceRate(double[] sorted, double w, double h, double window) {
+        return chanceRate(sorted, w, h, window, Identifier.lowerBound(sorted, w - h));
+    }
+
+    /** As {@link #chanceRate(double[], double, double, double)}, given the first peak not below w - h. */
+    private static double chanceRate(double[] sorted, double w, double h, double window, int first) {
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
-        int right = Identifier.lowerBound(sorted, w - h);
+        int right = first;
         int left = right - 1;
         while (right < sorted.length && sorted[right] <= w + h) {
             right++;

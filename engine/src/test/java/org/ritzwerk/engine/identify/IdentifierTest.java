@@ -348,4 +348,27 @@ class IdentifierTest {
                 + two.count(Identification.AMBIGUOUS) + " ambiguous, " + two.count(Identification.UNEXPLAINED)
                 + " unexplained]", two.toString());
     }
+
+    /**
+     * The search from a guess that the presence figures use gives the index the binary search
+     * gives, for any sorted array (with repeats), key and guess, including NaN and keys beyond
+     * either end (the lower bound is unique, so any right search must agree).
+     */
+    @Test
+    void theSearchFromAGuessFindsTheBinarySearchsIndex() {
+        qt().withFixedSeed(29L).withExamples(400).forAll(longs().all()).checkAssert(seed -> {
+            Random random = new Random(seed);
+            double[] sorted = new double[random.nextInt(60)];
+            for (int i = 0; i < sorted.length; i++) {
+                sorted[i] = random.nextInt(40) * 0.5;
+            }
+            java.util.Arrays.sort(sorted);
+            for (int trial = 0; trial < 50; trial++) {
+                double key = trial == 0 ? Double.NaN : random.nextDouble() * 24 - 2;
+                int guess = random.nextInt(sorted.length + 1);
+                assertEquals(Identifier.lowerBound(sorted, key), Identifier.lowerBound(sorted, key, guess),
+                        () -> java.util.Arrays.toString(sorted) + " key " + key + " guess " + guess);
+            }
+        });
+    }
 }
