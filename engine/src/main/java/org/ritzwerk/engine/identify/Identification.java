@@ -890,27 +890,15 @@ public final class Identification {
         double lo = sorted[0];
         double hi = sorted[sorted.length - 1];
         int right = first;
-        int left = right - 1;
         while (right < sorted.length && sorted[right] <= w + h) {
             right++;
         }
-        int counted = 0;
-        double radius = h;
-        while (counted < DENSITY_NEIGHBOURS && (left >= 0 || right < sorted.length)) {
-            double dl = left >= 0 ? w - sorted[left] : Double.POSITIVE_INFINITY;
-            double dr = right < sorted.length ? sorted[right] - w : Double.POSITIVE_INFINITY;
-            if (dl <= dr) {
-                radius = dl;
-                left--;
-            } else {
-                radius = dr;
-                right++;
-            }
-            counted++;
-        }
+        int left = first - 1;
+        int counted = Math.min(DENSITY_NEIGHBOURS, left + 1 + sorted.length - right);
         double density;
         double excluded = overlap(w - h, w + h, lo, hi);
         if (counted == DENSITY_NEIGHBOURS) {
+            double radius = nearest(sorted, w, left, right, DENSITY_NEIGHBOURS);
             double length = overlap(w - radius, w + radius, lo, hi) - excluded;
             density = length > 0 ? (counted - 1) / length : Double.POSITIVE_INFINITY;
         } else {
@@ -921,6 +909,38 @@ public final class Identification {
         // counts as infinite: chance explains everything there)
         double rate = density * window;
         return rate > 0 ? -Math.expm1(-rate) : 0;
+    }
+
+    /**
+     * The distance from w of the k-th nearest peak outside a window: the k-th smallest of the
+     * distances below it (w - sorted[left], w - sorted[left - 1], ...) and above it
+     * (sorted[right] - w, ...), both ascending, found by halving the split between them rather
+     * than by merging k steps (whose branches are unpredictable; this runs for every line of every
+     * presence figure).
+     *
+     * @param left  the nearest peak below the window (-1 when none)
+     * @param right the nearest peak above it (sorted.length when none)
+     * @param k     how many, at most the peaks on both sides together
+     * @return the k-th smallest distance
+     */
+    static double nearest(double[] sorted, double w, int left, int right, int k) {
+        int below = left + 1;
+        int above = sorted.length - right;
+        // a peaks from below and k - a from above: the least a whose a-th distance below is not
+        // smaller than the (k - a)-th above, as in a merge of the two.
+        int lo = Math.max(0, k - above);
+        int hi = Math.min(k, below);
+        while (lo < hi) {
+            int a = (lo + hi) >>> 1;
+            if (w - sorted[left - a] < sorted[right + k - a - 1] - w) {
+                lo = a + 1;
+            } else {
+                hi = a;
+            }
+        }
+        double fromBelow = lo > 0 ? w - sorted[left - lo + 1] : Double.NEGATIVE_INFINITY;
+        double fromAbove = k - lo > 0 ? sorted[right + k - lo - 1] - w : Double.NEGATIVE_INFINITY;
+        return Math.max(fromBelow, fromAbove);
     }
 
     private static double overlap(double a, double b, double lo, double hi) {

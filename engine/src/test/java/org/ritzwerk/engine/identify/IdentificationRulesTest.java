@@ -217,6 +217,49 @@ class IdentificationRulesTest {
     }
 
     /**
+     * The local peak density's k-th nearest peak outside a window, found by halving, is the one a
+     * merge of the peaks below and above the window reaches after k steps (the plain way, kept
+     * here as the reference): the same double for random sorted peaks with repeats, windows
+     * anywhere (also beyond either end) and every k the peaks allow.
+     */
+    @Test
+    void theKthNearestPeakIsTheOneAMergeReaches() {
+        SplittableRandom random = new SplittableRandom(31);
+        for (int trial = 0; trial < 3000; trial++) {
+            double[] sorted = new double[1 + random.nextInt(40)];
+            for (int i = 0; i < sorted.length; i++) {
+                sorted[i] = random.nextInt(60) * 0.25;
+            }
+            Arrays.sort(sorted);
+            double w = random.nextDouble(-2, 17);
+            double h = random.nextDouble(0, 3);
+            int right = 0;
+            while (right < sorted.length && sorted[right] < w - h) {
+                right++;
+            }
+            int left = right - 1;
+            while (right < sorted.length && sorted[right] <= w + h) {
+                right++;
+            }
+            int outside = left + 1 + sorted.length - right;
+            for (int k = 1; k <= outside; k++) {
+                int l = left;
+                int r = right;
+                double radius = Double.NaN;
+                for (int step = 0; step < k; step++) {
+                    double dl = l >= 0 ? w - sorted[l] : Double.POSITIVE_INFINITY;
+                    double dr = r < sorted.length ? sorted[r] - w : Double.POSITIVE_INFINITY;
+                    radius = dl <= dr ? dl : dr;
+                    l -= dl <= dr ? 1 : 0;
+                    r += dl <= dr ? 0 : 1;
+                }
+                assertEquals(radius, Identification.nearest(sorted, w, left, right, k), 0.0,
+                        Arrays.toString(sorted) + " w " + w + " h " + h + " k " + k);
+            }
+        }
+    }
+
+    /**
      * The multiplet lies between two peaks it cannot both explain. A low-resolution spectrum
      * (absolute tolerance 0.5 nm) shows the H I Balmer-alpha multiplet read 0.26 nm long and the
      * He II 6-4 line, 0.26 nm short of Balmer alpha. Balmer alpha is the cheaper candidate of
