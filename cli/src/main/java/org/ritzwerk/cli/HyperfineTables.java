@@ -23,6 +23,15 @@ final class HyperfineTables {
     /** The option that asks for Zeeman components, in tesla. */
     static final String FIELD_OPTION = "--field-tesla";
 
+    /** What a Zeeman component's {@code u Hz} and {@code mJ mI weight} columns hold. */
+    static final String ZEEMAN_NOTE = "note: --field-tesla: u Hz is each component's own standard uncertainty: its "
+            + "centroid's and its two states' energies' from the stated uncertainties of A and B (first order, by the "
+            + "Hellmann-Feynman theorem; at 0 T those of the F -> F' components), as independent; left out: the g "
+            + "factors', the field's, and the fine-structure splitting's (it enters only through the field's mixing "
+            + "of p1/2 and p3/2). mJ mI weight: each state's largest |m_J m_I> component and its squared amplitude, "
+            + "the label that holds at high field, where F and mF only name the zero-field level a state connects to "
+            + "(README, Hyperfine and Zeeman structure)";
+
     private HyperfineTables() {
     }
 
@@ -50,15 +59,19 @@ final class HyperfineTables {
         List<Table.Column> columns = new java.util.ArrayList<>(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("line", "line"),
-                Table.Column.text("lower", "lower"),
-                Table.Column.text("upper", "upper")));
+                Table.Column.text("lower", "lower")));
+        if (zeeman) { // each state's largest |m_J m_I> component: the label that holds at high field
+            columns.addAll(List.of(Table.Column.text("lower_m_j", "mJ"), Table.Column.text("lower_m_i", "mI"),
+                    Table.Column.number("lower_weight", "weight", "%.4f")));
+        }
+        columns.add(Table.Column.text("upper", "upper"));
         if (zeeman) {
-            columns.add(Table.Column.text("polarisation", "pol"));
+            columns.addAll(List.of(Table.Column.text("upper_m_j", "mJ'"), Table.Column.text("upper_m_i", "mI'"),
+                    Table.Column.number("upper_weight", "weight'", "%.4f"),
+                    Table.Column.text("polarisation", "pol")));
         }
         columns.add(Table.Column.number("frequency_hz", "Hz", "%.12e"));
-        if (!zeeman) {
-            columns.add(Table.Column.number("uncertainty_hz", "u Hz", "%.2g"));
-        }
+        columns.add(Table.Column.number("uncertainty_hz", "u Hz", "%.2g"));
         columns.addAll(List.of(
                 Table.Column.number("offset_mhz", "MHz from centroid", "%.4f"),
                 Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.7f")));
@@ -80,9 +93,13 @@ final class HyperfineTables {
                     for (ZeemanComponent c : data.zeemanComponents(context, species, ground, upper, fieldTesla)) {
                         List<Object> row = new java.util.ArrayList<>(List.of(species.notation(), d.line(),
                                 ground.notation() + " F=" + half(c.twoFLower()) + " mF=" + half(c.twoMFLower()),
+                                c.lowerDominant().mJLabel(), c.lowerDominant().mILabel(), c.lowerDominant().weight(),
                                 upper.notation() + " F'=" + half(c.twoFUpper()) + " mF'=" + half(c.twoMFUpper()),
+                                c.upperDominant().mJLabel(), c.upperDominant().mILabel(), c.upperDominant().weight(),
                                 c.q() == 0 ? "pi" : c.q() > 0 ? "sigma+" : "sigma-"));
-                        addPosition(row, c.frequencyHertz(), centroid, air);
+                        row.add(c.frequencyHertz());
+                        row.add(c.frequencyUncertaintyHertz());
+                        addOffsetAndWavelengths(row, c.frequencyHertz(), centroid, air);
                         row.add(c.relativeStrength());
                         row.add(fieldTesla);
                         table.add(row.toArray());
@@ -232,11 +249,6 @@ final class HyperfineTables {
                 + "8 m_e for each level, <r^2> of the model's wavefunctions, m-averaged; it grows as B^2)",
                 atom.species().notation(), new java.math.BigDecimal(Double.toString(fieldTesla)).stripTrailingZeros()
                         .toPlainString(), d1, d2);
-    }
-
-    private static void addPosition(List<Object> row, double hertz, double centroidHertz, boolean air) {
-        row.add(hertz);
-        addOffsetAndWavelengths(row, hertz, centroidHertz, air);
     }
 
     private static void addOffsetAndWavelengths(List<Object> row, double hertz, double centroidHertz, boolean air) {

@@ -275,6 +275,9 @@ final class LinesCommand implements Callable<Integer> {
             for (AlkaliAtom atom : atoms.alkalis()) {
                 spec.commandLine().getErr().println(HyperfineTables.diamagneticNote(atom, fieldTesla));
             }
+        }
+        if (fieldTesla != null) {
+            spec.commandLine().getErr().println(HyperfineTables.ZEEMAN_NOTE);
             spec.commandLine().getErr().flush();
         }
         return 0;

@@ -199,8 +199,60 @@ class HyperfineCommandTest {
         }
         CliTest.Run zeeman = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "0.001",
                 "--medium", "air", "--format", "csv");
-        assertTrue(zeeman.out().startsWith("species,line,lower,upper,polarisation,frequency_hz,offset_mhz,"
-                + "vacuum_wavelength_nm,air_wavelength_nm,relative_strength,field_tesla"), zeeman.out());
+        assertTrue(zeeman.out().startsWith("species,line,lower,lower_m_j,lower_m_i,lower_weight,upper,upper_m_j,"
+                + "upper_m_i,upper_weight,polarisation,frequency_hz,uncertainty_hz,offset_mhz,vacuum_wavelength_nm,"
+                + "air_wavelength_nm,relative_strength,field_tesla"), zeeman.out());
+    }
+
+    /**
+     * Zeeman components carry the uncertainty column of the zero-field ones (equal to them at 0 T, where the
+     * Hellmann-Feynman derivatives are the Casimir factors; ZeemanUncertaintyTest checks the values against an
+     * independent propagation) and each state's largest |m_J m_I> component: at 1 T, well into the Paschen-Back
+     * regime of the Rb-87 ground level (mu_B B about 8 times its 6.8 GHz splitting), every ground state is
+     * nearly pure, weight above 0.98 (0.986 at least, by make_zeeman_uncertainty_golden.py), and the F = 2 branch
+     * but its m_F = -2 state has m_J = +1/2 (the Breit-Rabi branches; common practice).
+     */
+    @Test
+    void zeemanComponentsCarryUncertaintiesAndHighFieldLabels() {
+        CliTest.Run zero = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "0",
+                "--format", "csv");
+        CliTest.Run plain = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--format", "csv");
+        assertEquals(0, zero.code(), zero.err());
+        java.util.Map<String, Double> byF = new java.util.HashMap<>();
+        for (String row : plain.out().strip().split("\n")) {
+            String[] f = row.replace("\"", "").split(",");
+            if (!f[0].equals("species")) {
+                byF.put(f[1] + " " + f[2].replaceAll(".*F=", "") + " " + f[3].replaceAll(".*F'=", ""),
+                        Double.parseDouble(f[5]));
+            }
+        }
+        String[] rows = zero.out().strip().split("\n");
+        assertEquals(1 + 36 + 54, rows.length, zero.out());
+        for (int i = 1; i < rows.length; i++) {
+            String[] f = rows[i].replace("\"", "").split(",");
+            String key = f[1] + " " + f[2].replaceAll(".*F=(\\S+) mF.*", "$1") + " "
+                    + f[6].replaceAll(".*F'=(\\S+) mF.*", "$1");
+            assertEquals(byF.get(key), Double.parseDouble(f[12]), 1e-6 * byF.get(key), rows[i]);
+        }
+        CliTest.Run high = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1",
+                "--format", "csv");
+        assertEquals(0, high.code(), high.err());
+        assertTrue(high.err().contains("note: --field-tesla: u Hz is each component's own standard uncertainty"),
+                high.err());
+        for (String row : high.out().strip().split("\n")) {
+            String[] f = row.replace("\"", "").split(",");
+            if (f[0].equals("species")) {
+                continue;
+            }
+            String lower = f[2];
+            int twoMF = 2 * Integer.parseInt(lower.replaceAll(".*mF=", ""));
+            boolean upperBranch = lower.contains("F=2") && twoMF != -4;
+            assertEquals(upperBranch ? "1/2" : "-1/2", f[3], row);
+            int twoMI = twoMF - (upperBranch ? 1 : -1);
+            assertEquals(twoMI + "/2", f[4], row);
+            assertTrue(Double.parseDouble(f[5]) > 0.98, row);
+            assertTrue(Double.parseDouble(f[12]) > 6000 && Double.parseDouble(f[12]) < 30000, row);
+        }
     }
 
     @Test

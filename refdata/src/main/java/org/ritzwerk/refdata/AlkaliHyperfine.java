@@ -398,7 +398,11 @@ public final class AlkaliHyperfine {
      * @param lower      the lower level
      * @param upper      the upper level
      * @param fieldTesla the field, tesla, 0 to {@link ZeemanStructure#MAX_FIELD_TESLA}
-     * @return the components by frequency
+     * @return the components by frequency, each with its frequency's standard uncertainty on its own (the
+     *         centroid's, {@link AlkaliAtom#frequencyUncertaintyHz}, and the two states' energy uncertainties from
+     *         the stated u(A), u(B) of the levels, first order by the Hellmann-Feynman theorem, in quadrature; at
+     *         zero field equal to {@link #components}'; NaN when the centroid has none) and the largest
+     *         |m_J m_I> component of each state with its weight
      * @throws ReferenceDataException when either level has no constants or the nucleus no moment
      */
     public List<ZeemanComponent> zeemanComponents(DataContext context, Species species, State lower, State upper,
@@ -415,11 +419,13 @@ public final class AlkaliHyperfine {
             if (low.isPresent() && high.isPresent()) {
                 AlkaliAtom atom = context.alkaliAtom(species);
                 return ZeemanStructure.termComponents(p.twoI, p.lower, 1, low.get().constants(), high.get().constants(),
-                        atom.frequencyHz(p12, p32), upper.twoJ(), gI, p.centroid, fieldTesla);
+                        atom.frequencyHz(p12, p32), upper.twoJ(), gI, p.centroid, p.centroidUncertainty,
+                        fieldTesla);
             }
         }
         return ZeemanStructure.components(p.twoI, lower.twoJ(), p.lower, ZeemanStructure.landeG(lower.l(), lower.twoJ()),
-                upper.twoJ(), p.upper, ZeemanStructure.landeG(upper.l(), upper.twoJ()), gI, p.centroid, fieldTesla);
+                upper.twoJ(), p.upper, ZeemanStructure.landeG(upper.l(), upper.twoJ()), gI, p.centroid,
+                p.centroidUncertainty, fieldTesla);
     }
 
     /**

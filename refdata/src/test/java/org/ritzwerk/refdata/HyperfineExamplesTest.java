@@ -36,6 +36,15 @@ class HyperfineExamplesTest {
         List<ZeemanComponent> zeeman = data.zeemanComponents(context, rb87, State.parse("5s1/2"),
                 State.parse("5p3/2"), 1e-4);                              // 1 gauss = 1e-4 T
         assertEquals(1, zeeman.stream().mapToDouble(ZeemanComponent::relativeStrength).sum(), 1e-10);
+
+        // at 1 T: the stretched cooling component F = 2, m_F = 2 -> F' = 3, m_F' = 3 with its standard uncertainty
+        // (7.7 kHz, as at zero field: its energy stays linear in A and B) and the |m_J m_I> states it joins
+        ZeemanComponent stretched = data.zeemanComponents(context, rb87, State.parse("5s1/2"), State.parse("5p3/2"),
+                1.0).stream().filter(c -> c.twoMFLower() == 4 && c.twoMFUpper() == 6).findFirst().orElseThrow();
+        assertEquals(cooling.frequencyUncertaintyHertz(), stretched.frequencyUncertaintyHertz(), 1e-3);   // Hz
+        assertEquals("3/2", stretched.upperDominant().mJLabel());         // |m_J = 3/2, m_I = 3/2>
+        assertEquals("3/2", stretched.upperDominant().mILabel());
+        assertEquals(1, stretched.upperDominant().weight(), 1e-12);
     }
 
     @Test

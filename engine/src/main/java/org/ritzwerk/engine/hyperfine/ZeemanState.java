@@ -1,5 +1,8 @@
 package org.ritzwerk.engine.hyperfine;
 
+import java.util.Arrays;
+import java.util.Objects;
+import java.util.OptionalDouble;
 import org.ritzwerk.engine.hydrogenic.Notation;
 
 /**
@@ -8,31 +11,47 @@ import org.ritzwerk.engine.hydrogenic.Notation;
  * do not cross, so the k-th lowest state of an m_F block is the k-th lowest F level that has that
  * m_F). Immutable and thread-safe: the amplitudes are copied in and out.
  *
- * @param twoMF         2 m_F
- * @param twoF          2 F of the zero-field level it connects to
- * @param energyHertz   energy / h relative to the level's hyperfine-free centroid at zero field, Hz
- * @param amplitudes    the eigenvector in the |m_J m_I> basis: index (m_J + J) (2I + 1) + (m_I + I),
- *                      m_J and m_I ascending; real, normalised
+ * <p>NaN policy: {@code energyUncertaintyHertz} is NaN when not estimated (an uncertainty of A or B that
+ * the energy depends on is not stated).
+ *
+ * @param twoMF                  2 m_F
+ * @param twoF                   2 F of the zero-field level it connects to
+ * @param energyHertz            energy / h relative to the level's hyperfine-free centroid at zero field, Hz
+ * @param amplitudes             the eigenvector in the |m_J m_I> basis: index (m_J + J) (2I + 1) + (m_I + I),
+ *                               m_J and m_I ascending; real, normalised
+ * @param energyUncertaintyHertz the energy's standard uncertainty from the stated uncertainties of the level's
+ *                               A and B (first order, Hellmann-Feynman: {@link ZeemanStructure#eigenstates}), Hz;
+ *                               NaN when not estimated
+ * @param dominant               the largest |m_J m_I> component and its weight
  */
-public record ZeemanState(int twoMF, int twoF, double energyHertz, double[] amplitudes) {
+public record ZeemanState(int twoMF, int twoF, double energyHertz, double[] amplitudes,
+        double energyUncertaintyHertz, UncoupledLabel dominant) {
 
     /**
      * Copies the amplitudes.
      *
-     * @param twoMF         2 m_F
-     * @param twoF          2 F of the zero-field level it connects to
-     * @param energyHertz   energy / h relative to the level's hyperfine-free centroid at zero field, Hz
-     * @param amplitudes    the eigenvector in the |m_J m_I> basis: index (m_J + J) (2I + 1) + (m_I + I),
-     *                      m_J and m_I ascending; real, normalised
+     * @param twoMF                  2 m_F
+     * @param twoF                   2 F of the zero-field level it connects to
+     * @param energyHertz            energy / h relative to the level's hyperfine-free centroid at zero field, Hz
+     * @param amplitudes             the eigenvector in the |m_J m_I> basis; real, normalised
+     * @param energyUncertaintyHertz the energy's standard uncertainty, Hz; NaN when not estimated
+     * @param dominant               the largest |m_J m_I> component and its weight; not null
      */
     public ZeemanState {
         amplitudes = amplitudes.clone();
+        Objects.requireNonNull(dominant, "dominant");
     }
 
     /** @return a copy of the amplitudes */
     @Override
     public double[] amplitudes() {
         return amplitudes.clone();
+    }
+
+    /** @return the energy's standard uncertainty, Hz, or empty when not estimated */
+    public OptionalDouble energyUncertainty() {
+        return Double.isNaN(energyUncertaintyHertz) ? OptionalDouble.empty()
+                : OptionalDouble.of(energyUncertaintyHertz);
     }
 
     /** @return m_F as text: {@code -1} or {@code 3/2} */
@@ -48,16 +67,20 @@ public record ZeemanState(int twoMF, int twoF, double energyHertz, double[] ampl
     @Override
     public boolean equals(Object o) {
         return o instanceof ZeemanState s && s.twoMF == twoMF && s.twoF == twoF
-                && Double.compare(s.energyHertz, energyHertz) == 0 && java.util.Arrays.equals(s.amplitudes, amplitudes);
+                && Double.compare(s.energyHertz, energyHertz) == 0 && Arrays.equals(s.amplitudes, amplitudes)
+                && Double.compare(s.energyUncertaintyHertz, energyUncertaintyHertz) == 0
+                && s.dominant.equals(dominant);
     }
 
     @Override
     public int hashCode() {
-        return java.util.Objects.hash(twoMF, twoF, energyHertz, java.util.Arrays.hashCode(amplitudes));
+        return Objects.hash(twoMF, twoF, energyHertz, Arrays.hashCode(amplitudes), energyUncertaintyHertz, dominant);
     }
 
     @Override
     public String toString() {
-        return "ZeemanState[F=" + fLabel() + ", mF=" + mFLabel() + ", " + energyHertz + " Hz]";
+        return "ZeemanState[F=" + fLabel() + ", mF=" + mFLabel() + ", " + energyHertz + " Hz, u "
+                + energyUncertaintyHertz + " Hz, |mJ=" + dominant.mJLabel() + " mI=" + dominant.mILabel() + "> "
+                + dominant.weight() + "]";
     }
 }

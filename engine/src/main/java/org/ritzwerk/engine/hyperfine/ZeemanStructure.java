@@ -50,6 +50,10 @@ public final class ZeemanStructure {
     /** Largest field accepted, tesla. */
     public static final double MAX_FIELD_TESLA = 1000;
     private static final double SHARE_FLOOR = 1e-12;
+    /** A = 1 Hz, B = 0: {@link #hamiltonian} with it (and no field) is dH/dA. */
+    private static final HyperfineConstants UNIT_A = new HyperfineConstants(1, 0, "the derivative by A");
+    /** A = 0, B = 1 Hz: {@link #hamiltonian} with it (and no field) is dH/dB. */
+    private static final HyperfineConstants UNIT_B = new HyperfineConstants(0, 1, "the derivative by B");
 
     private ZeemanStructure() {
     }
@@ -186,13 +190,25 @@ public final class ZeemanStructure {
     /**
      * Diagonalises a level's hyperfine-Zeeman Hamiltonian (see the class comment).
      *
+     * <p><b>Uncertainties</b> (first order): the Hamiltonian is linear in A and B, H = A H_A + B H_B + H_Z, so
+     * by the Hellmann-Feynman theorem (H. Hellmann, Einfuhrung in die Quantenchemie (1937); R. P. Feynman,
+     * Phys. Rev. 56, 340 (1939); common practice) each eigenvalue's derivatives are exactly
+     * {@code dE/dA = <psi|H_A|psi>} and {@code dE/dB = <psi|H_B|psi>} for its normalised eigenvector psi, and
+     * {@code u(E) = sqrt((dE/dA u_A)^2 + (dE/dB u_B)^2)}, A and B taken as uncorrelated (sources state no
+     * covariance; GUM, JCGM 100:2008, eq. 10, from memory). At zero field the derivatives are the Casimir
+     * factors, so u(E) is {@link HyperfineStructure#shiftUncertaintyHertz}. A constant whose derivative is 0
+     * (below 1e-12: B of a level without a quadrupole term, or of an F whose Casimir factor of B is 0) does
+     * not enter. The g factors and the field are taken as exact.
+     *
      * @param twoI       2 I, 0 to 40
      * @param twoJ       2 J, 1 to 40
-     * @param constants  A and B of the level
+     * @param constants  A and B of the level, with their uncertainties where stated
      * @param gJ         its g_J
      * @param gI         g_I in units of mu_B
      * @param fieldTesla the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
-     * @return all (2I+1)(2J+1) eigenstates, by m_F ascending, then energy ascending
+     * @return all (2I+1)(2J+1) eigenstates, by m_F ascending, then energy ascending, each with its energy's
+     *         standard uncertainty (NaN when an uncertainty of A or B it depends on is not stated) and its
+     *         largest |m_J m_I> component
      */
     public static List<ZeemanState> eigenstates(int twoI, int twoJ, HyperfineConstants constants, double gJ,
             double gI, double fieldTesla) {
@@ -205,6 +221,8 @@ public final class ZeemanStructure {
         int nI = twoI + 1;
         int n = (twoJ + 1) * nI;
         double[][] h = hamiltonian(twoI, twoJ, constants, gJ, gI, fieldTesla);
+        double[][] perA = hamiltonian(twoI, twoJ, UNIT_A, 0, 0, 0);
+        double[][] perB = hasQuadrupole(twoI, twoJ) ? hamiltonian(twoI, twoJ, UNIT_B, 0, 0, 0) : null;
         List<ZeemanState> out = new ArrayList<>();
         for (int twoMF = -(twoI + twoJ); twoMF <= twoI + twoJ; twoMF += 2) {
             int mf = twoMF;
@@ -226,14 +244,20 @@ public final class ZeemanStructure {
                         full[r] = -full[r];
                     }
                 }
-                out.add(new ZeemanState(twoMF, fs.get(rank)[0], eigen[0][rank], full));
+                double u = quadrature(0, expectation(perA, full, 0), constants.aUncertaintyHertz());
+                if (perB != null) {
+                    u = quadrature(u, expectation(perB, full, 0), constants.bUncertaintyHertz());
+                }
+                out.add(new ZeemanState(twoMF, fs.get(rank)[0], eigen[0][rank], full, u,
+                        dominant(full, a -> twoJ, a -> twoMJ(a, nI, twoJ), a -> twoMI(a, nI, twoI))));
             }
         }
         return List.copyOf(out);
     }
 
     /**
-     * The m_F-resolved dipole components of the line between two levels of an isotope in a field.
+     * The m_F-resolved dipole components of the line between two levels of an isotope in a field, without
+     * uncertainties (the centroid's taken as not stated, so every component's is NaN).
      *
      * @param twoI          2 I, 0 to 40
      * @param twoJLower     2 J of the lower level
@@ -250,10 +274,37 @@ public final class ZeemanStructure {
     public static List<ZeemanComponent> components(int twoI, int twoJLower, HyperfineConstants lower, double gJLower,
             int twoJUpper, HyperfineConstants upper, double gJUpper, double gI, double centroidHertz,
             double fieldTesla) {
+        return components(twoI, twoJLower, lower, gJLower, twoJUpper, upper, gJUpper, gI, centroidHertz, Double.NaN,
+                fieldTesla);
+    }
+
+    /**
+     * The m_F-resolved dipole components of the line between two levels of an isotope in a field, each with its
+     * frequency's standard uncertainty on its own: the centroid's and the two states' energy uncertainties
+     * ({@link #eigenstates}) in quadrature, the centroid and the two levels' constants taken as independent
+     * (as {@link HyperfineStructure#components} at zero field, whose uncertainties these equal at B = 0).
+     *
+     * @param twoI                     2 I, 0 to 40
+     * @param twoJLower                2 J of the lower level
+     * @param lower                    its A and B, with their uncertainties where stated
+     * @param gJLower                  its g_J
+     * @param twoJUpper                2 J' of the upper level, |J - J'| &lt;= 1
+     * @param upper                    its A and B, with their uncertainties where stated
+     * @param gJUpper                  its g_J
+     * @param gI                       g_I in units of mu_B
+     * @param centroidHertz            the line's hyperfine-free centroid frequency, Hz
+     * @param centroidUncertaintyHertz its standard uncertainty, Hz; not negative, or NaN when not estimated
+     * @param fieldTesla               the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
+     * @return every component whose share of the line strength exceeds 1e-12, by frequency
+     */
+    public static List<ZeemanComponent> components(int twoI, int twoJLower, HyperfineConstants lower, double gJLower,
+            int twoJUpper, HyperfineConstants upper, double gJUpper, double gI, double centroidHertz,
+            double centroidUncertaintyHertz, double fieldTesla) {
         if (Math.abs(twoJLower - twoJUpper) > 2 || !Double.isFinite(centroidHertz)) {
             throw new IllegalArgumentException("no dipole line from 2J = " + twoJLower + " to 2J' = " + twoJUpper
                     + " at centroid " + centroidHertz + " Hz");
         }
+        checkCentroidUncertainty(centroidUncertaintyHertz);
         List<ZeemanState> lo = eigenstates(twoI, twoJLower, lower, gJLower, gI, fieldTesla);
         List<ZeemanState> up = eigenstates(twoI, twoJUpper, upper, gJUpper, gI, fieldTesla);
         int nI = twoI + 1;
@@ -283,8 +334,11 @@ public final class ZeemanStructure {
                 }
                 double share = amp * amp / (twoI + 1);
                 if (share > SHARE_FLOOR) {
+                    double uf = Math.sqrt(centroidUncertaintyHertz * centroidUncertaintyHertz
+                            + square(l.energyUncertaintyHertz()) + square(u.energyUncertaintyHertz()));
                     out.add(new ZeemanComponent(l.twoF(), l.twoMF(), u.twoF(), u.twoMF(), twoQ / 2,
-                            centroidHertz + u.energyHertz() - l.energyHertz(), share));
+                            centroidHertz + u.energyHertz() - l.energyHertz(), share, uf, l.dominant(),
+                            u.dominant()));
                 }
             }
         }
@@ -317,11 +371,45 @@ public final class ZeemanStructure {
      * @param gI                 g_I in units of mu_B
      * @param centroidHertz      that line's hyperfine-free centroid frequency, Hz
      * @param fieldTesla         the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
-     * @return every component of the line whose share exceeds 1e-12, by frequency
+     * @return every component of the line whose share exceeds 1e-12, by frequency (uncertainties NaN: the
+     *         centroid's is taken as not stated)
      */
     public static List<ZeemanComponent> termComponents(int twoI, HyperfineConstants lower, int lUpper,
             HyperfineConstants upperLow, HyperfineConstants upperHigh, double fineStructureHertz, int twoJUpper,
             double gI, double centroidHertz, double fieldTesla) {
+        return termComponents(twoI, lower, lUpper, upperLow, upperHigh, fineStructureHertz, twoJUpper, gI,
+                centroidHertz, Double.NaN, fieldTesla);
+    }
+
+    /**
+     * {@link #termComponents(int, HyperfineConstants, int, HyperfineConstants, HyperfineConstants, double, int,
+     * double, double, double)} with each component's frequency uncertainty on its own: the centroid's and the
+     * two states' energy uncertainties in quadrature. The lower state's is {@link #eigenstates}'; the upper
+     * state's, by the Hellmann-Feynman theorem on the term's Hamiltonian (linear in the A and B of both J
+     * levels), {@code sqrt(sum_X (<psi|H_X|psi> u_X)^2)} over A and B of p1/2 and p3/2, a constant with a
+     * derivative below 1e-12 not entering (at zero field the other level's, so it equals
+     * {@link HyperfineStructure#components}' uncertainty there). Left out: the uncertainty of the
+     * fine-structure splitting, which enters only through the field's mixing of the two J (the derivative of
+     * a component by it is the weight of the other J level in the upper state, about 1e-6 for Rb at 1 T), and
+     * that of the g factors and the field.
+     *
+     * @param twoI                     2 I, 0 to 40
+     * @param lower                    A (and B) of the s1/2 level, with uncertainties where stated
+     * @param lUpper                   the upper term's l: 1
+     * @param upperLow                 A and B of its J = l - 1/2 level, with uncertainties where stated
+     * @param upperHigh                A and B of its J = l + 1/2 level, with uncertainties where stated
+     * @param fineStructureHertz       E(l + 1/2) - E(l - 1/2), Hz; finite (negative for an inverted term)
+     * @param twoJUpper                which line: 2J of its upper level, 1 (D1) or 3 (D2)
+     * @param gI                       g_I in units of mu_B
+     * @param centroidHertz            that line's hyperfine-free centroid frequency, Hz
+     * @param centroidUncertaintyHertz its standard uncertainty, Hz; not negative, or NaN when not estimated
+     * @param fieldTesla               the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
+     * @return every component of the line whose share exceeds 1e-12, by frequency
+     */
+    public static List<ZeemanComponent> termComponents(int twoI, HyperfineConstants lower, int lUpper,
+            HyperfineConstants upperLow, HyperfineConstants upperHigh, double fineStructureHertz, int twoJUpper,
+            double gI, double centroidHertz, double centroidUncertaintyHertz, double fieldTesla) {
+        checkCentroidUncertainty(centroidUncertaintyHertz);
         Objects.requireNonNull(lower, "lower");
         Objects.requireNonNull(upperLow, "upperLow");
         Objects.requireNonNull(upperHigh, "upperHigh");
@@ -345,6 +433,7 @@ public final class ZeemanStructure {
         List<ZeemanComponent> out = new ArrayList<>();
         double total = 0;
         List<double[]> found = new ArrayList<>();
+        List<UncoupledLabel[]> labels = new ArrayList<>();
         for (ZeemanState l : lo) {
             double[] a = l.amplitudes();
             for (int u = 0; u < term.size(); u++) {
@@ -362,15 +451,20 @@ public final class ZeemanStructure {
                 double strength = amp * amp;
                 total += strength;
                 if (term.twoJ(u) == twoJUpper) {
+                    double uf = Math.sqrt(centroidUncertaintyHertz * centroidUncertaintyHertz
+                            + square(l.energyUncertaintyHertz()) + square(term.energyUncertaintyHertz(u)));
                     found.add(new double[] {l.twoF(), l.twoMF(), term.twoF(u), term.twoMF(u), twoQ / 2.0,
-                        lowCentroid + term.energyHertz(u) - l.energyHertz(), strength});
+                        lowCentroid + term.energyHertz(u) - l.energyHertz(), strength, uf});
+                    labels.add(new UncoupledLabel[] {l.dominant(), term.dominant(u)});
                 }
             }
         }
-        for (double[] f : found) {
+        for (int k = 0; k < found.size(); k++) {
+            double[] f = found.get(k);
             double share = f[6] / (total * lineShare);
             if (share > SHARE_FLOOR) {
-                out.add(new ZeemanComponent((int) f[0], (int) f[1], (int) f[2], (int) f[3], (int) f[4], f[5], share));
+                out.add(new ZeemanComponent((int) f[0], (int) f[1], (int) f[2], (int) f[3], (int) f[4], f[5], share,
+                        f[7], labels.get(k)[0], labels.get(k)[1]));
             }
         }
         out.sort(Comparator.comparingDouble(ZeemanComponent::frequencyHertz));
@@ -391,6 +485,8 @@ public final class ZeemanStructure {
         private final int[] twoJ;
         private final int[] twoF;
         private final double[][] vectors;
+        private final double[] energyUncertainty;
+        private final UncoupledLabel[] dominant;
 
         Term(int twoI, int l, HyperfineConstants low, HyperfineConstants high, double fineStructure, double gI,
                 double tesla) {
@@ -443,6 +539,19 @@ public final class ZeemanStructure {
             twoJ = new int[n];
             twoF = new int[n];
             vectors = new double[n][];
+            energyUncertainty = new double[n];
+            dominant = new UncoupledLabel[n];
+            // the derivatives of H by A and B of each J level (Hellmann-Feynman), as matrices of the J block
+            double[][][] perX = new double[4][][];
+            double[] uX = new double[4];
+            for (int block = 0; block < 2; block++) {
+                int tj = block == 0 ? 2 * l - 1 : 2 * l + 1;
+                HyperfineConstants c = block == 0 ? low : high;
+                perX[2 * block] = hamiltonian(twoI, tj, UNIT_A, 0, 0, 0);
+                uX[2 * block] = c.aUncertaintyHertz();
+                perX[2 * block + 1] = hasQuadrupole(twoI, tj) ? hamiltonian(twoI, tj, UNIT_B, 0, 0, 0) : null;
+                uX[2 * block + 1] = c.bUncertaintyHertz();
+            }
             int k = 0;
             for (int mf = -(twoI + 2 * l + 1); mf <= twoI + 2 * l + 1; mf += 2) {
                 int twoMFBlock = mf;
@@ -462,6 +571,15 @@ public final class ZeemanStructure {
                     twoJ[k] = labels.get(rank)[0];
                     twoF[k] = labels.get(rank)[1];
                     vectors[k] = eigen[1 + rank];
+                    double u = 0;
+                    for (int x = 0; x < 4; x++) {
+                        if (perX[x] != null) {
+                            u = quadrature(u, expectation(perX[x], vectors[k], x < 2 ? 0 : nLow), uX[x]);
+                        }
+                    }
+                    energyUncertainty[k] = u;
+                    dominant[k] = ZeemanStructure.dominant(vectors[k], a -> twoJOf[a], a -> twoMJOf[a],
+                            a -> twoMIOf[a]);
                     k++;
                 }
             }
@@ -485,6 +603,14 @@ public final class ZeemanStructure {
 
         double energyHertz(int u) {
             return energy[u];
+        }
+
+        double energyUncertaintyHertz(int u) {
+            return energyUncertainty[u];
+        }
+
+        UncoupledLabel dominant(int u) {
+            return dominant[u];
         }
 
         /**
@@ -566,6 +692,62 @@ public final class ZeemanStructure {
             out[1 + rank] = full;
         }
         return out;
+    }
+
+    /**
+     * {@code <v|m|v>} over the block of v that starts at {@code offset} (m the size of that block).
+     */
+    private static double expectation(double[][] m, double[] v, int offset) {
+        double sum = 0;
+        for (int r = 0; r < m.length; r++) {
+            if (v[offset + r] == 0) {
+                continue;
+            }
+            double row = 0;
+            for (int c = 0; c < m.length; c++) {
+                row += m[r][c] * v[offset + c];
+            }
+            sum += v[offset + r] * row;
+        }
+        return sum;
+    }
+
+    /**
+     * Adds {@code (derivative * u)^2} to a standard uncertainty in quadrature; a derivative below 1e-12 (a
+     * constant the energy does not depend on) adds nothing, even where u is not stated (NaN).
+     */
+    private static double quadrature(double soFar, double derivative, double u) {
+        if (Math.abs(derivative) < 1e-12) {
+            return soFar;
+        }
+        return Math.hypot(soFar, derivative * u);
+    }
+
+    /** The largest component of v (ties within {@link UncoupledLabel#TIE} to the first index) and its weight. */
+    private static UncoupledLabel dominant(double[] v, java.util.function.IntUnaryOperator twoJ,
+            java.util.function.IntUnaryOperator twoMJ, java.util.function.IntUnaryOperator twoMI) {
+        int big = 0;
+        for (int r = 1; r < v.length; r++) {
+            if (v[r] * v[r] > v[big] * v[big] + UncoupledLabel.TIE) {
+                big = r;
+            }
+        }
+        return new UncoupledLabel(twoJ.applyAsInt(big), twoMJ.applyAsInt(big), twoMI.applyAsInt(big), v[big] * v[big]);
+    }
+
+    private static boolean hasQuadrupole(int twoI, int twoJ) {
+        return twoI >= 2 && twoJ >= 2;
+    }
+
+    private static double square(double x) {
+        return x * x;
+    }
+
+    private static void checkCentroidUncertainty(double u) {
+        if (u < 0 || u == Double.POSITIVE_INFINITY) {
+            throw new IllegalArgumentException("the centroid's uncertainty must be finite and not negative (Hz; NaN"
+                    + " for not estimated), got " + u);
+        }
     }
 
     /** The Hamiltonian matrix in the |m_J m_I> basis, Hz. */

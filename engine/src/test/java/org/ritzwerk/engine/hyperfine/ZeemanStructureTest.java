@@ -233,6 +233,92 @@ class ZeemanStructureTest {
         assertTrue(pi >= 6, "strong pi components at 1000 T: " + pi);
     }
 
+    /**
+     * At zero field the Hellmann-Feynman derivatives are the Casimir factors, so each state's energy uncertainty
+     * is its F level's shift uncertainty and each component's that of its F -> F' component (common practice:
+     * the two propagations describe the same linear dependence on A and B); per level and for the p term.
+     */
+    @Test
+    void zeroFieldUncertaintiesAreTheZeroFieldOnes() {
+        HyperfineConstants s = HyperfineConstants.ofMegahertz(2298.1579425, 0.0001, 0, Double.NaN, "x");
+        HyperfineConstants p12 = HyperfineConstants.ofMegahertz(291.9309, 0.0012, 0, Double.NaN, "x");
+        HyperfineConstants p32 = HyperfineConstants.ofMegahertz(50.28827, 0.00023, -0.4934, 0.0017, "x");
+        for (ZeemanState st : ZeemanStructure.eigenstates(7, 3, p32, 1.33, G_I, 0)) {
+            assertEquals(HyperfineStructure.shiftUncertaintyHertz(7, 3, st.twoF(), p32), st.energyUncertaintyHertz(),
+                    1e-9 * st.energyUncertaintyHertz(), st.toString());
+        }
+        double gS = ZeemanStructure.electronSpinG();
+        for (int twoJ : new int[] {1, 3}) {
+            HyperfineConstants up = twoJ == 1 ? p12 : p32;
+            List<HyperfineComponent> f = HyperfineStructure.components(7, 1, s, twoJ, up, 3.5e14, 5100);
+            List<ZeemanComponent> perLevel = ZeemanStructure.components(7, 1, s, gS, twoJ, up,
+                    ZeemanStructure.landeG(1, twoJ), G_I, 3.5e14, 5100, 0);
+            List<ZeemanComponent> term = ZeemanStructure.termComponents(7, s, 1, p12, p32, 1.6e13, twoJ, G_I, 3.5e14,
+                    5100, 0);
+            assertEquals(perLevel.size(), term.size());
+            for (List<ZeemanComponent> list : List.of(perLevel, term)) {
+                for (ZeemanComponent c : list) {
+                    HyperfineComponent h = f.stream().filter(x -> x.twoFLower() == c.twoFLower()
+                            && x.twoFUpper() == c.twoFUpper()).findFirst().orElseThrow();
+                    assertEquals(h.frequencyUncertaintyHertz(), c.frequencyUncertaintyHertz(),
+                            1e-9 * h.frequencyUncertaintyHertz(), c.toString());
+                }
+            }
+        }
+    }
+
+    /** NaN policy: an unstated uncertainty that a state depends on gives NaN; one it does not depend on, nothing. */
+    @Test
+    void unstatedUncertaintiesGiveNaNOnlyWhereTheyEnter() {
+        HyperfineConstants s = HyperfineConstants.ofMegahertz(3417.34130545215, 0.0001, 0, Double.NaN, "x");
+        // J = 1/2: B does not enter, so its unstated uncertainty does not matter
+        for (ZeemanState st : ZeemanStructure.eigenstates(3, 1, s, G_J, G_I, 0.1)) {
+            assertTrue(Double.isFinite(st.energyUncertaintyHertz()), st.toString());
+        }
+        HyperfineConstants noB = HyperfineConstants.ofMegahertz(84.7185, 0.002, 12.4965, Double.NaN, "x");
+        for (ZeemanState st : ZeemanStructure.eigenstates(3, 3, noB, 1.33, G_I, 0.1)) {
+            assertTrue(Double.isNaN(st.energyUncertaintyHertz()), st.toString());
+            assertTrue(st.energyUncertainty().isEmpty());
+        }
+        // a centroid without an uncertainty: every component's is NaN (the old overload)
+        assertTrue(ZeemanStructure.components(3, 1, s, G_J, 3, noB, 1.33, G_I, 3.8e14, 0.1).stream()
+                .allMatch(c -> c.frequencyUncertainty().isEmpty()));
+        assertThrows(IllegalArgumentException.class,
+                () -> ZeemanStructure.components(3, 1, s, G_J, 3, noB, 1.33, G_I, 3.8e14, -1, 0.1));
+    }
+
+    /**
+     * Deep in the hyperfine Paschen-Back regime each ground state of Rb-87 tends to one |m_J m_I>, and the
+     * Breit-Rabi formula's states go over to E = g_J m_J mu_B B + A m_J m_I + g_I m_I mu_B B (Breit and Rabi
+     * 1931; common practice): the upper F = I + 1/2 branch to m_J = +1/2, m_I = m_F - 1/2, except its stretched
+     * state m_F = -(I + 1/2), which has m_J = -1/2; the F = I - 1/2 branch to m_J = -1/2, m_I = m_F + 1/2. At
+     * 1 T (mu_B B about 8 times the 6.8 GHz splitting) every weight exceeds 0.98, at 3 T 0.998.
+     */
+    @Test
+    void paschenBackLabelsFollowTheBreitRabiBranches() {
+        double split = HyperfineStructure.splittingHertz(3, 1, RB87_5S);
+        for (double tesla : new double[] {1, 3}) {
+            for (ZeemanState st : ZeemanStructure.eigenstates(3, 1, RB87_5S, G_J, G_I, tesla)) {
+                assertEquals(ZeemanStructure.breitRabiHertz(3, st.twoF(), st.twoMF(), split, G_J, G_I, tesla),
+                        st.energyHertz(), 1e-3);
+                int twoMJ = st.twoF() == 4 && st.twoMF() != -4 ? 1 : -1;
+                UncoupledLabel d = st.dominant();
+                assertEquals(1, d.twoJ());
+                assertEquals(twoMJ, d.twoMJ(), st.toString());
+                assertEquals(st.twoMF() - twoMJ, d.twoMI(), st.toString());
+                assertTrue(d.weight() > (tesla == 1 ? 0.98 : 0.998), st.toString());
+                // the energy's sign follows m_J at high field
+                assertEquals(twoMJ > 0, st.energyHertz() > 0, st.toString());
+            }
+        }
+        // at zero field |F = 1, m_F = 0> is (|1/2, -1/2> - |-1/2, 1/2>) / sqrt 2: a tie, to the lower m_J
+        ZeemanState tie = ZeemanStructure.eigenstates(3, 1, RB87_5S, G_J, G_I, 0).stream()
+                .filter(x -> x.twoF() == 2 && x.twoMF() == 0).findFirst().orElseThrow();
+        assertEquals(-1, tie.dominant().twoMJ());
+        assertEquals(1, tie.dominant().twoMI());
+        assertEquals(0.5, tie.dominant().weight(), 1e-12);
+    }
+
     @Test
     void badFieldIsRefused() {
         assertThrows(IllegalArgumentException.class, () -> ZeemanStructure.eigenstates(3, 1, RB87_5S, 2, 0, -1));
