@@ -36,17 +36,6 @@ final class Setups {
     }
 
     /**
-     * Refuses a list of the parameters that names one thing twice, as the command line refuses a
-     * repeated option value: a species or lamp given twice enters every line twice, so that each
-     * peak finds two equal candidates and none is matched.
-     *
-     * @param field  the list's name, for the message
-     * @param values the list
-     * @param key    what makes two entries the same (the parsed species, say)
-     * @param <K>    the key's type
-     * @throws IllegalArgumentException naming the repeated entry
-     */
-    /**
      * @param field  the parameter's name, for the message
      * @param values a list of a parameter record
      * @throws IllegalArgumentException naming the first null or blank element
@@ -64,6 +53,17 @@ final class Setups {
         }
     }
 
+    /**
+     * Refuses a list of the parameters that names one thing twice, as the command line refuses a
+     * repeated option value: a species or lamp given twice enters every line twice, so that each
+     * peak finds two equal candidates and none is matched.
+     *
+     * @param field  the list's name, for the message
+     * @param values the list
+     * @param key    what makes two entries the same (the parsed species, say)
+     * @param <K>    the key's type
+     * @throws IllegalArgumentException naming the repeated entry
+     */
     static <K> void requireDistinct(String field, List<String> values, Function<String, K> key) {
         java.util.Map<K, String> seen = new java.util.HashMap<>();
         for (String value : values) {
