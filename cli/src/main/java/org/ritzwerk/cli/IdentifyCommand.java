@@ -553,13 +553,22 @@ final class IdentifyCommand implements Callable<Integer> {
         if (format == Table.Format.text) {
             summary.println();
         }
+        // Each reason among the ambiguous peaks; a peak with several counts under each.
+        int rivals = 0;
         int notShown = 0;
         int stray = 0;
         for (int i = 0; i < positions.length; i++) {
-            notShown += result.speciesNotShown(i) ? 1 : 0;
-            stray += result.ambiguousAsStray(i) ? 1 : 0;
+            if (result.status(i) == Identification.AMBIGUOUS) {
+                java.util.Set<Identification.Ambiguity> reasons = result.ambiguity(i);
+                rivals += reasons.contains(Identification.Ambiguity.CLOSE_RIVAL) ? 1 : 0;
+                notShown += reasons.contains(Identification.Ambiguity.SPECIES_NOT_SHOWN) ? 1 : 0;
+                stray += reasons.contains(Identification.Ambiguity.MAY_BE_STRAY) ? 1 : 0;
+            }
         }
-        List<String> why = new ArrayList<>(2);
+        List<String> why = new ArrayList<>(3);
+        if (rivals > 0) {
+            why.add(rivals + " with a close rival");
+        }
         if (notShown > 0) {
             why.add(notShown + " of a species not shown beyond chance");
         }
