@@ -247,8 +247,13 @@ final class HyperfineTables {
         return String.format(java.util.Locale.ROOT, "note: %s: the diamagnetic (B^2) shift is left out of the "
                 + "components: at %s T it moves D1 by about %+.2g Hz and D2 by about %+.2g Hz (e^2 B^2 (2/3) <r^2> / "
                 + "8 m_e for each level, <r^2> of the model's wavefunctions, m-averaged; it grows as B^2)",
-                atom.species().notation(), new java.math.BigDecimal(Double.toString(fieldTesla)).stripTrailingZeros()
-                        .toPlainString(), d1, d2);
+                atom.species().notation(), fieldText(fieldTesla), d1, d2);
+    }
+
+    /** @return the field as typed for the usual fields (0.0001), in powers of ten beyond them (1E-160) */
+    static String fieldText(double fieldTesla) {
+        java.math.BigDecimal field = new java.math.BigDecimal(Double.toString(fieldTesla)).stripTrailingZeros();
+        return field.scale() > 12 ? field.toString() : field.toPlainString();
     }
 
     private static void addOffsetAndWavelengths(List<Object> row, double hertz, double centroidHertz, boolean air) {

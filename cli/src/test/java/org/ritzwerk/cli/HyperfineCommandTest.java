@@ -294,4 +294,30 @@ class HyperfineCommandTest {
             throw new java.io.UncheckedIOException(e);
         }
     }
+
+    /**
+     * A field too weak to resolve (1e-160 T) gives the zero-field components, as the engine takes it
+     * (it stopped with an internal error, and at 1e-200 T printed no component), and the notes give
+     * such a field in powers of ten rather than 160 zeros.
+     */
+    @Test
+    void aFieldTooWeakToResolveGivesTheZeroFieldComponents() {
+        CliTest.Run zero = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "0",
+                "--format", "csv");
+        for (String field : new String[] {"1e-160", "1e-200"}) {
+            CliTest.Run weak = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", field,
+                    "--format", "csv");
+            assertEquals(0, weak.code(), weak.err());
+            String[] zeroRows = zero.out().strip().split("\n");
+            String[] weakRows = weak.out().strip().split("\n");
+            assertEquals(zeroRows.length, weakRows.length, weak.out());
+            for (int k = 1; k < zeroRows.length; k++) {
+                // every column but the field's, the last
+                assertEquals(zeroRows[k].substring(0, zeroRows[k].lastIndexOf(',')),
+                        weakRows[k].substring(0, weakRows[k].lastIndexOf(',')));
+            }
+            assertTrue(weak.err().contains("at " + field.toUpperCase(java.util.Locale.ROOT) + " T"),
+                    weak.err());
+        }
+    }
 }

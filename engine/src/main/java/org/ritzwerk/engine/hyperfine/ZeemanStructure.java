@@ -49,6 +49,13 @@ public final class ZeemanStructure {
 
     /** Largest field accepted, tesla. */
     public static final double MAX_FIELD_TESLA = 1000;
+    /**
+     * Fields below this, tesla, are diagonalised as 0: their Zeeman energies (mu_B B below 1.4e-10
+     * Hz) are far below the last binary digit of a level's hyperfine energies (about 1e-7 Hz at a
+     * GHz), so they change no result, while entering the matrices (down to 1e-300 and below) made
+     * the eigensolver fail to converge or lose components.
+     */
+    static final double UNRESOLVED_FIELD_TESLA = 1e-20;
     private static final double SHARE_FLOOR = 1e-12;
     /** A = 1 Hz, B = 0: {@link #hamiltonian} with it (and no field) is dH/dA. */
     private static final HyperfineConstants UNIT_A = new HyperfineConstants(1, 0, "the derivative by A");
@@ -512,7 +519,7 @@ public final class ZeemanStructure {
                     h[offset + a][offset + a] += block == 0 ? 0 : fineStructure;
                 }
             }
-            double mub = bohrMagnetonHertzPerTesla() * tesla;
+            double mub = bohrMagnetonHertzPerTesla() * resolved(tesla);
             double gS = electronSpinG();
             for (int a = 0; a < n; a++) {
                 for (int b = 0; b < n; b++) {
@@ -777,7 +784,7 @@ public final class ZeemanStructure {
             }
             h = h.add(q.scalarMultiply(c.bHertz() / (2 * i * (2 * i - 1) * j * (2 * j - 1))));
         }
-        double mub = bohrMagnetonHertzPerTesla() * tesla;
+        double mub = bohrMagnetonHertzPerTesla() * resolved(tesla);
         for (int a = 0; a < n; a++) {
             h.addToEntry(a, a, mub * (gJ * twoMJ(a, nI, twoJ) / 2.0 + gI * twoMI(a, nI, twoI) / 2.0));
         }
@@ -792,7 +799,12 @@ public final class ZeemanStructure {
         return 2 * (index % nI) - twoI;
     }
 
-    private static void checkField(double fieldTesla) {
+    /** @return the field as the matrices take it: 0 below {@link #UNRESOLVED_FIELD_TESLA} */
+    private static double resolved(double tesla) {
+        return tesla < UNRESOLVED_FIELD_TESLA ? 0 : tesla;
+    }
+
+        private static void checkField(double fieldTesla) {
         if (!(fieldTesla >= 0) || fieldTesla > MAX_FIELD_TESLA) {
             throw new IllegalArgumentException("magnetic field must be 0 to " + MAX_FIELD_TESLA + " T, got " + fieldTesla);
         }

@@ -326,4 +326,33 @@ class ZeemanStructureTest {
         assertThrows(IllegalArgumentException.class,
                 () -> ZeemanStructure.breitRabiHertz(3, 6, 0, 1e9, 2, 0, 1));
     }
+
+    /**
+     * Fields far too weak to move any energy by a representable amount (below 1e-20 T, where
+     * mu_B B is 1.4e-10 Hz against level energies whose last binary digit is worth about 1e-7 Hz)
+     * give the zero-field components: the same count and the same frequencies, per level and for
+     * the whole term. Such fields made the eigensolver fail to converge (1e-160 T) or lose every
+     * component (1e-200 T) when their Zeeman terms entered the matrices.
+     */
+    @Test
+    void fieldsTooWeakToResolveGiveTheZeroFieldComponents() {
+        double gS = ZeemanStructure.electronSpinG();
+        HyperfineConstants p12 = HyperfineConstants.ofMegahertz(291.9309, 0, "x");
+        double gJ2 = ZeemanStructure.landeG(1, 3);
+        List<ZeemanComponent> perLevel = ZeemanStructure.components(7, 1, CS_6S, gS, 3, CS_6P32, gJ2, G_I, 3.5e14, 0);
+        List<ZeemanComponent> term = ZeemanStructure.termComponents(7, CS_6S, 1, p12, CS_6P32, 1.6e13, 3, G_I, 3.5e14,
+                0);
+        for (double tesla : new double[] {1e-21, 1e-160, 1e-200, 1e-300, Double.MIN_VALUE}) {
+            List<ZeemanComponent> weakLevel = ZeemanStructure.components(7, 1, CS_6S, gS, 3, CS_6P32, gJ2, G_I,
+                    3.5e14, tesla);
+            List<ZeemanComponent> weakTerm = ZeemanStructure.termComponents(7, CS_6S, 1, p12, CS_6P32, 1.6e13, 3,
+                    G_I, 3.5e14, tesla);
+            assertEquals(perLevel.size(), weakLevel.size(), "per level at " + tesla + " T");
+            assertEquals(term.size(), weakTerm.size(), "term at " + tesla + " T");
+            for (int k = 0; k < term.size(); k++) {
+                assertEquals(perLevel.get(k).frequencyHertz(), weakLevel.get(k).frequencyHertz(), 0.0);
+                assertEquals(term.get(k).frequencyHertz(), weakTerm.get(k).frequencyHertz(), 0.0);
+            }
+        }
+    }
 }
