@@ -26,7 +26,9 @@ import org.ritzwerk.refdata.internal.BuiltInCsv;
  * measured ground-level A constants and B times that of their first p3/2 B constants (common
  * practice; hyperfine anomalies of a few 0.1 % neglected). The built-in file is
  * {@code rydberg/rydberg-hyperfine.csv} (format {@value #FORMAT} 1), each row with its source and
- * how it was checked. Immutable and thread-safe.
+ * how it was checked. The law's own error is carried in the scaled constants' uncertainties, estimated from
+ * the drift of A n*^3 between the measured levels of each series in the project's data ({@link
+ * #scalingLawError}, {@link #scalingLawRelativeUncertainty}). Immutable and thread-safe.
  */
 public final class RydbergHyperfine {
 
