@@ -24,9 +24,15 @@ Independent of the project's code:
     the exact zero, the step 5p3/2 -> Rydberg combining both levels' as independent;
   * a Rydberg level's A and B are the series' constants scaled as n*^-3 (RydbergHyperfine, common practice):
     A(n) = A_ref (n*_ref / n*)^3 for a constant measured at level n_ref, A(n) = Abar / n*^3 for a published
-    scaled constant, and their stated uncertainties scaled by the same factor (the scaling's own error is not
-    included: the project leaves it out and says so); n* = n - delta(n) of the formula, n*_ref =
-    sqrt(R_M / (limit - E_ref)) of the measured reference level.
+    scaled constant, and their stated uncertainties scaled by the same factor; n* = n - delta(n) of the formula,
+    n*_ref = sqrt(R_M / (limit - E_ref)) of the measured reference level;
+  * the n*^-3 law's own error (RydbergHyperfine.scalingLawRelativeUncertainty), added to u_A and u_B in
+    quadrature as a relative uncertainty r = min(d |n - n_m|, cap) of A and of B: X = A n*^3 at two measured
+    levels of a series, d = |ln(X_b / X_a)| / |n_b - n_a|, n_m the nearest measured n (for a published scaled
+    constant the nearest end of the n range it was fitted over, 41-55 for Cs nP); cap, and d of a series with
+    one measured level (Rb nD5/2), the Cs 6s - 7s figure |ln(X_6s / X_7s)| (the largest of the project's
+    pairs, which RydbergHyperfineScalingLawTest checks over every series); Rb nS: 5s and 7s; Cs nP3/2: 6p3/2
+    and 7p3/2; measured levels' n* = sqrt(R_M / (limit - E)), E = 0 for a ground level.
 
 Numbers, as the data files hold them (their sources named there; most from memory):
   Rb-87 (I = 3/2): 5s A = 3417.34130545215(5e-11) MHz (Bize et al. 1999); 5p1/2 A = 408.328(15) MHz (Barwood
@@ -37,7 +43,9 @@ Numbers, as the data files hold them (their sources named there; most from memor
     -4 271.676 631 815 MHz from the centroid (Mack et al. 2011); nS d0 = 3.1311807(8), d2 = 0.1787(2); nD5/2
     d0 = 1.3464622(11), d2 = -0.5940(4) (Mack et al. 2011);
   Cs-133 (I = 7/2): 6s A = 2298.1579425 MHz exactly (the SI second); 6p3/2 A = 50.28827(23) MHz, B =
-    -0.4934(17) MHz (Gerginov et al. 2003); D2 351 725 718.4744(51) MHz (Gerginov et al. 2004); nP3/2 scaled
+    -0.4934(17) MHz (Gerginov et al. 2003); D2 351 725 718.4744(51) MHz (Gerginov et al. 2004), the 6p3/2
+    energy; 7s A = 545.818 MHz (Yang et al. 2016) at 18535.5286 cm-1, 7p3/2 A = 16.605 MHz (Arimondo et al.
+    1977) at 21946.397 cm-1 (both energies NIST ASD as typed in, levels-cs-133.csv); nP3/2 scaled
     A = 0.718(27) GHz, B = -0.084(102) GHz (Song et al. 2024, read in the abstract); limit 31 406.467 732 5(14)
     cm-1 and nP3/2 d0 = 3.5590676(2), d2 = 0.37469(14) (Deiglmayr et al. 2016);
   masses AME2020 (Rb-87 86.909180529 u, Cs-133 132.905451958 u), CODATA 2018 R_inf, m_e and c.
@@ -128,18 +136,50 @@ RB = {
     "5p1/2": (1, M("408.328") * MHZ_HZ, M("0.015") * MHZ_HZ, M(0), M(0)),
     "5p3/2": (3, M("84.7185") * MHZ_HZ, M("0.0020") * MHZ_HZ, M("12.4965") * MHZ_HZ, M("0.0037") * MHZ_HZ),
 }
+
+
+def x_measured(a_mhz, limit, rm, e):
+    """A n*^3 of a measured level, MHz."""
+    return a_mhz * n_star_measured(limit, rm, e) ** 3
+
+
+# the n*^-3 law's error: the cap (and the drift per n of a one-level series) from Cs 6s - 7s
+CS_LAW_CAP = abs(mpmath.log(x_measured(M("2298.1579425"), CS_LIMIT, CS_RM, M(0))
+                            / x_measured(M("545.818"), CS_LIMIT, CS_RM, M("18535.5286"))))
+RB_S_DRIFT = abs(mpmath.log(x_measured(M("3417.34130545215"), RB_LIMIT, RB_RM, M(0))
+                            / x_measured(M("319.759"), RB_LIMIT, RB_RM, M("26311.436")))) / 2
+
+
+def law(drift, distance):
+    return min(drift * distance, CS_LAW_CAP)
+
+
+def with_law(a, u_a, r):
+    return mpmath.sqrt(u_a ** 2 + (r * a) ** 2)
+
+
 scale_60s = (n_star_measured(RB_LIMIT, RB_RM, M("26311.436")) / n_star_formula(RB_S[0], 60)) ** 3
-RB["60s1/2"] = (1, M("319.759") * MHZ_HZ * scale_60s, M("0.028") * MHZ_HZ * scale_60s, M(0), M(0))
+a_60s = M("319.759") * MHZ_HZ * scale_60s
+RB["60s1/2"] = (1, a_60s, with_law(a_60s, M("0.028") * MHZ_HZ * scale_60s, law(RB_S_DRIFT, 60 - 7)), M(0), M(0))
 scale_60d = (n_star_measured(RB_LIMIT, RB_RM, M("30281.619")) / n_star_formula(RB_D52[0], 60)) ** 3
 # no B given for the series: the quadrupole term and its uncertainty are left out (B = 0, u_B = 0)
-RB["60d5/2"] = (5, M("-2.2") * MHZ_HZ * scale_60d, M("0.5") * MHZ_HZ * scale_60d, M(0), M(0))
+a_60d = M("-2.2") * MHZ_HZ * scale_60d
+RB["60d5/2"] = (5, a_60d, with_law(a_60d, M("0.5") * MHZ_HZ * scale_60d, law(CS_LAW_CAP, 60 - 7)), M(0), M(0))
 CS = {
     "6s1/2": (1, M("2298.1579425") * MHZ_HZ, M(0), M(0), M(0)),
     "6p3/2": (3, M("50.28827") * MHZ_HZ, M("0.00023") * MHZ_HZ, M("-0.4934") * MHZ_HZ, M("0.0017") * MHZ_HZ),
 }
 scale_40p = n_star_formula(CS_P32[0], 40) ** -3
-CS["40p3/2"] = (3, M("0.718") * 10 ** 9 * scale_40p, M("0.027") * 10 ** 9 * scale_40p,
-                M("-0.084") * 10 ** 9 * scale_40p, M("0.102") * 10 ** 9 * scale_40p)
+CS_P32_DRIFT = abs(mpmath.log(x_measured(M("50.28827"), CS_LIMIT, CS_RM, M("351725718.4744") * MHZ)
+                              / x_measured(M("16.605"), CS_LIMIT, CS_RM, M("21946.397"))))
+r_40p = law(CS_P32_DRIFT, 41 - 40)
+a_40p = M("0.718") * 10 ** 9 * scale_40p
+b_40p = M("-0.084") * 10 ** 9 * scale_40p
+CS["40p3/2"] = (3, a_40p, with_law(a_40p, M("0.027") * 10 ** 9 * scale_40p, r_40p),
+                b_40p, with_law(b_40p, M("0.102") * 10 ** 9 * scale_40p, r_40p))
+print("law: cap %s, Rb nS drift %s, Cs nP3/2 drift %s"
+      % (mpmath.nstr(CS_LAW_CAP, 12), mpmath.nstr(RB_S_DRIFT, 12),
+         mpmath.nstr(CS_P32_DRIFT, 12)))
 
 HEADER = ["# generated by make_hyperfine_uncertainty_golden.py with sympy %s and mpmath %s at 50 digits"
           % (sympy.__version__, mpmath.__version__),

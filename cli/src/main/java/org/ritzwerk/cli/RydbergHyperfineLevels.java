@@ -15,7 +15,8 @@ import org.ritzwerk.refdata.DataContext;
 /**
  * {@code levels --hyperfine --state STATE}: the F levels of one alkali level (a Rydberg level with
  * n*^-3-scaled constants, or a ground, first p or Cs 7p level with measured ones), each with its energy and
- * its shift from the hyperfine-free level. Formatting only: the constants and F levels come from
+ * its shift from the hyperfine-free level, and A and B with their standard uncertainties (for scaled constants
+ * including the n*^-3 law's own error; {@code -}, null in JSON, where none is stated). Formatting only: the constants and F levels come from
  * {@link DataContext#hyperfineConstants} and {@link DataContext#hyperfineLevels}.
  */
 final class RydbergHyperfineLevels {
@@ -44,7 +45,9 @@ final class RydbergHyperfineLevels {
                 Table.Column.number("energy_per_cm", "energy cm-1", "%.7f"),
                 Table.Column.number("shift_mhz", "shift MHz", "%.6f"),
                 Table.Column.number("a_mhz", "A MHz", "%.6f"),
+                Table.Column.number("a_uncertainty_mhz", "u A MHz", "%.2g"),
                 Table.Column.number("b_mhz", "B MHz", "%.6f"),
+                Table.Column.number("b_uncertainty_mhz", "u B MHz", "%.2g"),
                 Table.Column.text("constants", "constants")), out, format);
         for (AlkaliAtom atom : atoms) {
             double centroid;
@@ -61,7 +64,8 @@ final class RydbergHyperfineLevels {
             for (AlkaliHyperfine.FLevel f : levels) {
                 table.add(atom.species().notation(), state.notation(), half(f.twoF()), f.twoF() + 1, f.energyPerCm(),
                         (f.energyPerCm() - centroid) * 100 * PhysicalConstants.C / 1e6, constants.aHertz() / 1e6,
-                        constants.bHertz() / 1e6, constants.source());
+                        constants.aUncertaintyHertz() / 1e6, constants.bHertz() / 1e6,
+                        constants.bUncertaintyHertz() / 1e6, constants.source());
             }
         }
         table.finish();

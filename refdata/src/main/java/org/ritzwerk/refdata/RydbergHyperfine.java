@@ -26,7 +26,9 @@ import org.ritzwerk.refdata.internal.BuiltInCsv;
  * measured ground-level A constants and B times that of their first p3/2 B constants (common
  * practice; hyperfine anomalies of a few 0.1 % neglected). The built-in file is
  * {@code rydberg/rydberg-hyperfine.csv} (format {@value #FORMAT} 1), each row with its source and
- * how it was checked. Immutable and thread-safe.
+ * how it was checked. The law's own error is carried in the scaled constants' uncertainties, estimated from
+ * the drift of A n*^3 between the measured levels of each series in the project's data ({@link
+ * #scalingLawError}, {@link #scalingLawRelativeUncertainty}). Immutable and thread-safe.
  */
 public final class RydbergHyperfine {
 
@@ -49,6 +51,10 @@ public final class RydbergHyperfine {
      * @param kind        {@code level} (a, b measured at level {@code referenceN}) or {@code scaled}
      *                    (a, b are the published constants times n*^3)
      * @param referenceN  n of the measured level for {@code level}, 0 for {@code scaled}
+     * @param measuredFromN the lowest n the constant was measured at: {@code referenceN} for {@code level}, the
+     *                    lower end of the published fit's range (column reference-n, e.g. {@code 41-55}) for
+     *                    {@code scaled}
+     * @param measuredToN the highest such n
      * @param aText       a as printed
      * @param bText       b as printed; empty for j = 1/2, and for j > 1/2 when the source gives none
      * @param unit        {@code MHz} or {@code GHz}
@@ -61,7 +67,8 @@ public final class RydbergHyperfine {
      * @param source      the measurement
      * @param checked     how the value was checked
      */
-    public record Series(Species species, int l, int twoJ, String kind, int referenceN, String aText, String bText,
+    public record Series(Species species, int l, int twoJ, String kind, int referenceN, int measuredFromN,
+            int measuredToN, String aText, String bText,
             String unit, double aHertz, double bHertz, double aUncertaintyHertz, double bUncertaintyHertz, int fromN,
             Provenance.Kind provenance, String source, String checked) {
     }
@@ -114,16 +121,27 @@ public final class RydbergHyperfine {
                 }
                 String kind = f[3];
                 int referenceN;
+                int measuredFromN;
+                int measuredToN;
                 if (kind.equals("level")) {
                     referenceN = Integer.parseInt(f[4]);
                     if (referenceN <= l) {
                         throw new IllegalArgumentException("reference-n must exceed l, got " + f[4]);
                     }
+                    measuredFromN = referenceN;
+                    measuredToN = referenceN;
                 } else if (kind.equals("scaled")) {
-                    if (!f[4].isEmpty()) {
-                        throw new IllegalArgumentException("reference-n is empty for kind 'scaled', got '" + f[4] + "'");
+                    if (!f[4].matches("\\d{1,4}-\\d{1,4}")) {
+                        throw new IllegalArgumentException("reference-n for kind 'scaled' is the range of n the "
+                                + "published constant was fitted over, like 41-55, got '" + f[4] + "'");
                     }
                     referenceN = 0;
+                    measuredFromN = Integer.parseInt(f[4].substring(0, f[4].indexOf('-')));
+                    measuredToN = Integer.parseInt(f[4].substring(f[4].indexOf('-') + 1));
+                    if (measuredFromN <= l || measuredToN < measuredFromN) {
+                        throw new IllegalArgumentException("reference-n range must rise and start above l, got '"
+                                + f[4] + "'");
+                    }
                 } else {
                     throw new IllegalArgumentException("kind must be 'level' or 'scaled', got '" + kind + "'");
                 }
@@ -147,8 +165,8 @@ public final class RydbergHyperfine {
                 if (fromN <= l) {
                     throw new IllegalArgumentException("from-n must exceed l, got " + f[10]);
                 }
-                Series s = new Series(species, l, twoJ, kind, referenceN, f[5], f[7], unit, a, b, aUnc, bUnc, fromN,
-                        Provenance.Kind.fromId(f[11]), f[12], f[13]);
+                Series s = new Series(species, l, twoJ, kind, referenceN, measuredFromN, measuredToN, f[5], f[7],
+                        unit, a, b, aUnc, bUnc, fromN, Provenance.Kind.fromId(f[11]), f[12], f[13]);
                 if (out.stream().anyMatch(x -> x.species().equals(species) && x.l() == l && x.twoJ() == twoJ)) {
                     throw new IllegalArgumentException("second row for " + species.notation() + " l = " + l + ", j = "
                             + f[2]);
@@ -191,14 +209,18 @@ public final class RydbergHyperfine {
      * @param context the data context (the isotope's levels and limit give n*)
      * @param species an isotope
      * @param state   a level, e.g. 60s 2S1/2
-     * @return A and B in Hz, with the stated uncertainties of the series' constants scaled the same way (the
-     *         scaling's own error is not in them; B's is NaN where the row gives no B), or empty when the
+     * @return A and B in Hz, with standard uncertainties that combine in quadrature the stated uncertainty of the
+     *         series' constant, scaled the same way, and the n*^-3 law's own error ({@link
+     *         #scalingLawRelativeUncertainty} times |A|, likewise |B|; zero at the level the constant was measured
+     *         at); B's is NaN where the row gives no B; a borrowed isotope ratio's hyperfine anomaly is not in
+     *         them. Empty when the
      *         series has no scaling here or n is below its from-n; an isotope without a row of its own uses
      *         another isotope's row of the element, scaled by the ratio of the two isotopes' measured
      *         ground-level A (and first p3/2 B) constants
      */
     public Optional<HyperfineConstants> constants(DataContext context, Species species, State state) {
-        return resolve(context, species, state).map(r -> r.constants(context, species, state));
+        return resolve(context, species, state).map(r -> r.constants(context, species, state,
+                lawRelative(context, r.row(), state.n())));
     }
 
     /**
@@ -216,21 +238,171 @@ public final class RydbergHyperfine {
         return resolve(context, species, state).map(r -> r.origin(species, state));
     }
 
+    /**
+     * One level of a series with a measured A in the project's data, and A n*^3 there.
+     *
+     * @param state            the level
+     * @param aHertz           its measured A, Hz
+     * @param nStar            its effective principal quantum number (the isotope's own levels and limit)
+     * @param aNStarCubedHertz A n*^3, Hz: constant along the series if the n*^-3 law held exactly
+     * @param source           where A comes from ({@code rydberg-hyperfine.csv} or {@code hyperfine-constants.csv})
+     */
+    public record MeasuredLevel(State state, double aHertz, double nStar, double aNStarCubedHertz, String source) {
+    }
+
+    /**
+     * How far the n*^-3 law is off, as the measured levels in the project's data show it.
+     *
+     * @param driftPerN the largest |ln(X_b / X_a)| / |n_b - n_a| over every pair of measured levels of one series
+     *                  (X = A n*^3), the figure a series with only one measured level takes
+     * @param cap       the largest |ln(X_b / X_a)| over those pairs: the largest change of A n*^3 the data show
+     *                  along any series, the most the law's relative error is taken to reach
+     * @param pair      the two levels that give the largest drift per n, e.g. {@code Cs-133 I 6s 2S1/2 - 7s 2S1/2}
+     */
+    public record ScalingLawError(double driftPerN, double cap, String pair) {
+    }
+
+    /**
+     * The measured levels of one row's series: the row's own reference level (kind {@code level}) and every level
+     * of the row's isotope with the same l and j in {@code hyperfine-constants.csv} ({@link AlkaliHyperfine}), by
+     * rising n (a level in both counts once, the row's).
+     *
+     * @param context the data context (n* from the isotope's levels and limit; the measured constants)
+     * @param row     a row of this file
+     * @return its measured levels; one or more for kind {@code level}, possibly none for kind {@code scaled}
+     */
+    public List<MeasuredLevel> measuredLevels(DataContext context, Series row) {
+        Objects.requireNonNull(context, "context");
+        AlkaliAtom atom = context.alkaliAtom(row.species());
+        java.util.TreeMap<Integer, MeasuredLevel> out = new java.util.TreeMap<>();
+        for (AlkaliHyperfine.LevelConstants c : context.alkaliHyperfine().constants(row.species())) {
+            if (c.state().l() == row.l() && c.state().twoJ() == row.twoJ()) {
+                out.put(c.state().n(), point(atom, c.state(), c.constants().aHertz(), "hyperfine-constants.csv"));
+            }
+        }
+        if (row.kind().equals("level")) {
+            State ref = State.of(row.referenceN(), row.l(), row.twoJ());
+            out.put(row.referenceN(), point(atom, ref, row.aHertz(), "rydberg-hyperfine.csv"));
+        }
+        return List.copyOf(out.values());
+    }
+
+    private static MeasuredLevel point(AlkaliAtom atom, State state, double aHertz, String source) {
+        double nStar = atom.level(state).effectiveN();
+        return new MeasuredLevel(state, aHertz, nStar, aHertz * nStar * nStar * nStar, source);
+    }
+
+    /**
+     * The drift of A n*^3 per unit of n along one row's series: the largest |ln(X_b / X_a)| / |n_b - n_a| over
+     * every pair of its {@link #measuredLevels} (X = A n*^3).
+     *
+     * @param context the data context
+     * @param row     a row of this file
+     * @return the drift per n, or empty when the series has fewer than two measured levels here
+     */
+    public Optional<Double> driftPerN(DataContext context, Series row) {
+        List<MeasuredLevel> levels = measuredLevels(context, row);
+        double max = -1;
+        for (int i = 0; i < levels.size(); i++) {
+            for (int k = i + 1; k < levels.size(); k++) {
+                max = Math.max(max, logRatio(levels.get(i), levels.get(k))
+                        / (levels.get(k).state().n() - levels.get(i).state().n()));
+            }
+        }
+        return max < 0 ? Optional.empty() : Optional.of(max);
+    }
+
+    private static double logRatio(MeasuredLevel a, MeasuredLevel b) {
+        return Math.abs(Math.log(b.aNStarCubedHertz() / a.aNStarCubedHertz()));
+    }
+
+    /**
+     * The n*^-3 law's error as every series' measured levels in the project's data show it: the largest drift of
+     * A n*^3 per n and the largest change of A n*^3 between two measured levels of one series (see
+     * {@link #constants} for how they are used).
+     *
+     * @param context the data context
+     * @return the two figures and the pair of levels that gives the drift
+     * @throws IllegalStateException when no series has two measured levels (a file without them gives no basis)
+     */
+    public ScalingLawError scalingLawError(DataContext context) {
+        double drift = -1;
+        double cap = -1;
+        String pair = "";
+        for (Series row : series) {
+            List<MeasuredLevel> levels = measuredLevels(context, row);
+            for (int i = 0; i < levels.size(); i++) {
+                for (int k = i + 1; k < levels.size(); k++) {
+                    MeasuredLevel a = levels.get(i);
+                    MeasuredLevel b = levels.get(k);
+                    double change = logRatio(a, b);
+                    double perN = change / (b.state().n() - a.state().n());
+                    cap = Math.max(cap, change);
+                    if (perN > drift) {
+                        drift = perN;
+                        pair = row.species().notation() + " " + a.state().notation() + " - " + b.state().notation();
+                    }
+                }
+            }
+        }
+        if (drift < 0) {
+            throw new IllegalStateException("no series of the Rydberg hyperfine data has two measured levels: the "
+                    + "n*^-3 law's error cannot be estimated");
+        }
+        return new ScalingLawError(drift, cap, pair);
+    }
+
+    /**
+     * The relative standard uncertainty the n*^-3 law itself adds to one level's scaled A and B: {@code
+     * min(d |n - n_m|, cap)}, d the drift of A n*^3 per n of the series' own measured levels ({@link #driftPerN};
+     * for a series with one measured level the largest drift per n of any series, {@link #scalingLawError}), n_m
+     * the nearest n the series' constant was measured at (the reference level; for a published scaled constant the
+     * nearest end of the range it was fitted over, 0 inside it), cap the largest change of A n*^3 along any series
+     * in the data. Zero at the measured level itself.
+     *
+     * @param context the data context
+     * @param species an isotope
+     * @param state   a level, e.g. 60s 2S1/2
+     * @return the relative uncertainty, or empty when {@link #constants} is
+     */
+    public Optional<Double> scalingLawRelativeUncertainty(DataContext context, Species species, State state) {
+        return resolve(context, species, state).map(r -> lawRelative(context, r.row(), state.n()));
+    }
+
+    /**
+     * Linear in the distance in n from the measured level: the drift per n is measured between the lowest levels,
+     * where the law is worst (the core penetration of the valence electron changes most there), so carrying it
+     * up the series one n at a time overstates the error as A n*^3 levels off towards the Rydberg range; the cap
+     * keeps it from exceeding the largest change of A n*^3 the data show along a whole series.
+     */
+    private double lawRelative(DataContext context, Series row, int n) {
+        int distance = n < row.measuredFromN() ? row.measuredFromN() - n
+                : n > row.measuredToN() ? n - row.measuredToN() : 0;
+        if (distance == 0) {
+            return 0;
+        }
+        ScalingLawError law = scalingLawError(context);
+        double drift = driftPerN(context, row).orElse(law.driftPerN());
+        return Math.min(drift * distance, law.cap());
+    }
+
     /** A series' row as it serves one level: the row, and the ratios for a borrowed isotope (1 for its own). */
     private record Resolved(Series row, double aRatio, double bRatio, String how) {
 
-        HyperfineConstants constants(DataContext context, Species species, State state) {
+        HyperfineConstants constants(DataContext context, Species species, State state, double law) {
             AlkaliAtom atom = context.alkaliAtom(species);
             double nStar = atom.level(state).effectiveN();
             double scale = row.kind().equals("level")
                     ? Math.pow(atom.level(State.of(row.referenceN(), row.l(), row.twoJ())).effectiveN() / nStar, 3)
                     : Math.pow(nStar, -3);
             boolean measuredHere = origin(species, state).equals("measured");
-            return new HyperfineConstants(row.aHertz() * scale * aRatio, row.bHertz() * scale * bRatio,
+            double a = row.aHertz() * scale * aRatio;
+            double b = row.bHertz() * scale * bRatio;
+            return new HyperfineConstants(a, b,
                     row.source() + " (" + row.provenance().id() + ")" + how
                             + (measuredHere ? ", measured at this level" : ", scaled as n*^-3"),
-                    row.aUncertaintyHertz() * scale * Math.abs(aRatio),
-                    row.bUncertaintyHertz() * scale * Math.abs(bRatio));
+                    Math.hypot(row.aUncertaintyHertz() * scale * Math.abs(aRatio), law * Math.abs(a)),
+                    Math.hypot(row.bUncertaintyHertz() * scale * Math.abs(bRatio), law * Math.abs(b)));
         }
 
         String origin(Species species, State state) {

@@ -296,10 +296,11 @@ class RydbergHyperfineTest {
             {"Cs-133 I,0,1/2,level,7,545.818,0.016,,,THz,7,published,s,c", "unit must be one of [MHz, GHz]"},
             {"Cs-133 I,0,3/2,level,7,545.818,0.016,,,MHz,7,published,s,c", "j must be l +- 1/2"},
             {"Cs-133 I,0,1/2,lvl,7,545.818,0.016,,,MHz,7,published,s,c", "kind must be 'level' or 'scaled'"},
-            {"Cs-133 I,1,1/2,scaled,,3.760,0.026,0.1,0.1,GHz,7,published,s,c", "b is given only for j > 1/2"},
-            {"Cs-133 I,1,3/2,scaled,,0.718,0.027,-0.084,,GHz,7,published,s,c", "b and b-uncertainty are both given"},
-            {"Cs-133 I,1,3/2,scaled,,0.718,0.027,,0.1,GHz,7,published,s,c", "b and b-uncertainty are both given"},
-            {"Cs-133 I,1,1/2,scaled,7,3.760,0.026,,,GHz,7,published,s,c", "reference-n is empty for kind 'scaled'"},
+            {"Cs-133 I,1,1/2,scaled,41-55,3.760,0.026,0.1,0.1,GHz,7,published,s,c", "b is given only for j > 1/2"},
+            {"Cs-133 I,1,3/2,scaled,41-55,0.718,0.027,-0.084,,GHz,7,published,s,c", "b and b-uncertainty are both"},
+            {"Cs-133 I,1,3/2,scaled,41-55,0.718,0.027,,0.1,GHz,7,published,s,c", "b and b-uncertainty are both given"},
+            {"Cs-133 I,1,1/2,scaled,7,3.760,0.026,,,GHz,7,published,s,c", "reference-n for kind 'scaled' is the range"},
+            {"Cs-133 I,1,1/2,scaled,55-41,3.760,0.026,,,GHz,7,published,s,c", "reference-n range must rise"},
             {"Cs-133 I,0,1/2,level,7,five,0.016,,,MHz,7,published,s,c", "Character f is neither"},
         };
         for (String[] row : bad) {
