@@ -190,11 +190,11 @@ final class HyperfineTables {
             note.append(String.format(java.util.Locale.ROOT, "; %s (A = %.6g MHz, %s)", state.notation(),
                     c.aHertz() / 1e6, origin));
             if (!measured) {
-                note.append(": only the stated uncertainty of its series' constant enters, scaled like A; the n*^-3 "
-                        + "scaling's own error (a few per cent of A along a series, as the checks in "
-                        + "rydberg-hyperfine.csv say) is not included");
+                note.append(": its u(A) holds the stated uncertainty of its series' constant, scaled like A, and "
+                        + "the n*^-3 law's own error (the drift of A n*^3 per n between measured levels, times the "
+                        + "distance in n from the nearest, at most the largest change seen; README)");
                 if (origin.contains("isotope ratio")) {
-                    note.append(", nor the isotope ratio's hyperfine anomaly");
+                    note.append(", not the isotope ratio's hyperfine anomaly");
                 }
             }
             if (noB) {

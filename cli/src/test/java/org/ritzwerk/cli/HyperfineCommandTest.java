@@ -73,8 +73,8 @@ class HyperfineCommandTest {
         assertEquals(7716.58, Double.parseDouble(lockFields[8]), 0.01, lock);
         assertEquals(3.0e5, Double.parseDouble(lockFields[13]), 0.05e5, lock);
         // what the scaled 60s constant's part leaves out is said
-        assertTrue(run.err().contains("60s 2S1/2 (A = 0.0997011 MHz, scaled as n*^-3 from 7s 2S1/2): only the "
-                + "stated uncertainty of its series' constant enters, scaled like A; the n*^-3 scaling's own error"),
+        assertTrue(run.err().contains("60s 2S1/2 (A = 0.0997011 MHz, scaled as n*^-3 from 7s 2S1/2): its u(A) holds "
+                + "the stated uncertainty of its series' constant, scaled like A, and the n*^-3 law's own error"),
                 run.err());
         // JSON: the ladder's states on every row, and each step in standard air too, by the same air model as
         // the plain --ladder (Medium.air(), the standard air of the api), so the refusal of --medium air stays true
