@@ -351,8 +351,9 @@ class IdentifierTest {
 
     /**
      * The search from a guess that the presence figures use gives the index the binary search
-     * gives, for any sorted array (with repeats), key and guess, including NaN and keys beyond
-     * either end (the lower bound is unique, so any right search must agree).
+     * gives, for any sorted array (with repeats), key (on the values or between them) and guess (also
+     * beyond either end), including NaN and keys beyond either end (the lower bound is unique, so any
+     * right search must agree).
      */
     @Test
     void theSearchFromAGuessFindsTheBinarySearchsIndex() {
@@ -364,8 +365,11 @@ class IdentifierTest {
             }
             java.util.Arrays.sort(sorted);
             for (int trial = 0; trial < 50; trial++) {
-                double key = trial == 0 ? Double.NaN : random.nextDouble() * 24 - 2;
-                int guess = random.nextInt(sorted.length + 1);
+                // half the keys on the values' own grid, where a walk that stops at <= instead of < differs
+                double key = trial == 0 ? Double.NaN
+                        : trial % 2 == 0 ? random.nextInt(48) * 0.5 - 2 : random.nextDouble() * 24 - 2;
+                // guesses beyond either end too, which the search clamps
+                int guess = random.nextInt(sorted.length + 11) - 5;
                 assertEquals(Identifier.lowerBound(sorted, key), Identifier.lowerBound(sorted, key, guess),
                         () -> java.util.Arrays.toString(sorted) + " key " + key + " guess " + guess);
             }
