@@ -71,7 +71,7 @@ public final class HyperfineStructure {
      * {@code u = sqrt((K/2 u_A)^2 + (c_B u_B)^2)}, with c_B the factor of B in the Casimir formula (class
      * comment). A and B of one level are taken as uncorrelated: sources state no covariance (GUM, JCGM
      * 100:2008, eq. 10, from memory; common practice). The B term counts only where the quadrupole term applies
-     * (I &gt;= 1 and J &gt;= 1).
+     * (I &gt;= 1 and J &gt;= 1), and the A term only where K is not 0.
      *
      * @param twoI 2 I; 0 to 40
      * @param twoJ 2 J; 1 to 40
@@ -82,7 +82,8 @@ public final class HyperfineStructure {
      */
     public static double shiftUncertaintyHertz(int twoI, int twoJ, int twoF, HyperfineConstants constants) {
         double[] d = partials(twoI, twoJ, twoF);
-        double a = d[0] * constants.aUncertaintyHertz();
+        // an F whose Casimir factor K is 0 does not move with A: A's uncertainty, stated or not, does not enter
+        double a = d[0] == 0 ? 0 : d[0] * constants.aUncertaintyHertz();
         if (d[1] == 0) {
             return Math.abs(a); // no quadrupole term for this F (or this level): B's uncertainty does not enter
         }

@@ -143,4 +143,24 @@ class HyperfineStructureTest {
         assertThrows(IllegalArgumentException.class, () -> HyperfineConstants.ofMegahertz(Double.NaN, 0, "x"));
         assertThrows(IllegalArgumentException.class, () -> HyperfineConstants.ofMegahertz(1, 0, " "));
     }
+
+    /**
+     * An F level whose Casimir factor K is 0 does not move with A (I = 3, J = 3/2, F = 7/2:
+     * K = 63/4 - 12 - 15/4 = 0; and every level of I = 0), so A's uncertainty does not enter its
+     * shift's, stated or not, as the diagonalised Hamiltonian's derivative says at zero field
+     * (ZeemanStructure.eigenstates, Hellmann-Feynman). It gave NaN when u(A) was not stated.
+     */
+    @Test
+    void anFWhoseShiftDoesNotDependOnAIgnoresItsUncertainty() {
+        HyperfineConstants noUA = HyperfineConstants.ofMegahertz(10, Double.NaN, 2, 0.1, "x");
+        double expected = Math.abs(HyperfineStructure.shiftHertz(6, 3, 7, HyperfineConstants.ofMegahertz(0, 1, "x")))
+                * 0.1e6 / 1e6;
+        assertEquals(expected, HyperfineStructure.shiftUncertaintyHertz(6, 3, 7, noUA), 1e-9 * expected);
+        assertEquals(0, HyperfineStructure.shiftUncertaintyHertz(0, 1, 1, noUA), 0.0);
+        for (ZeemanState state : ZeemanStructure.eigenstates(6, 3, noUA, 0.8, 0, 0)) {
+            if (state.twoF() == 7) {
+                assertEquals(expected, state.energyUncertaintyHertz(), 1e-6 * expected, state.toString());
+            }
+        }
+    }
 }
