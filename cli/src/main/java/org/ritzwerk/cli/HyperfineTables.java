@@ -29,8 +29,9 @@ final class HyperfineTables {
             + "Hellmann-Feynman theorem; at 0 T those of the F -> F' components), as independent; left out: the g "
             + "factors', the field's, and the fine-structure splitting's (it enters only through the field's mixing "
             + "of p1/2 and p3/2). mJ mI weight: each state's largest |m_J m_I> component and its squared amplitude, "
-            + "the label that holds at high field, where F and mF only name the zero-field level a state connects to "
-            + "(README, Hyperfine and Zeeman structure)";
+            + "the label that holds at high field, where F and mF only name the zero-field level a state connects to; "
+            + "J' is that component's J, since p1/2 and p3/2 are diagonalised together and the field mixes them (for "
+            + "Li from about a tesla up the largest may be the other J) (README, Hyperfine and Zeeman structure)";
 
     private HyperfineTables() {
     }
@@ -66,7 +67,8 @@ final class HyperfineTables {
         }
         columns.add(Table.Column.text("upper", "upper"));
         if (zeeman) {
-            columns.addAll(List.of(Table.Column.text("upper_m_j", "mJ'"), Table.Column.text("upper_m_i", "mI'"),
+            columns.addAll(List.of(Table.Column.text("upper_j", "J'"), Table.Column.text("upper_m_j", "mJ'"),
+                    Table.Column.text("upper_m_i", "mI'"),
                     Table.Column.number("upper_weight", "weight'", "%.4f"),
                     Table.Column.text("polarisation", "pol")));
         }
@@ -95,7 +97,8 @@ final class HyperfineTables {
                                 ground.notation() + " F=" + half(c.twoFLower()) + " mF=" + half(c.twoMFLower()),
                                 c.lowerDominant().mJLabel(), c.lowerDominant().mILabel(), c.lowerDominant().weight(),
                                 upper.notation() + " F'=" + half(c.twoFUpper()) + " mF'=" + half(c.twoMFUpper()),
-                                c.upperDominant().mJLabel(), c.upperDominant().mILabel(), c.upperDominant().weight(),
+                                half(c.upperDominant().twoJ()), c.upperDominant().mJLabel(),
+                                c.upperDominant().mILabel(), c.upperDominant().weight(),
                                 c.q() == 0 ? "pi" : c.q() > 0 ? "sigma+" : "sigma-"));
                         row.add(c.frequencyHertz());
                         row.add(c.frequencyUncertaintyHertz());

@@ -559,7 +559,7 @@ final class IdentifyCommand implements Callable<Integer> {
         int stray = 0;
         for (int i = 0; i < positions.length; i++) {
             if (result.status(i) == Identification.AMBIGUOUS) {
-                java.util.Set<Identification.Ambiguity> reasons = result.ambiguity(i);
+                Set<Identification.Ambiguity> reasons = result.ambiguity(i);
                 rivals += reasons.contains(Identification.Ambiguity.CLOSE_RIVAL) ? 1 : 0;
                 notShown += reasons.contains(Identification.Ambiguity.SPECIES_NOT_SHOWN) ? 1 : 0;
                 stray += reasons.contains(Identification.Ambiguity.MAY_BE_STRAY) ? 1 : 0;

@@ -730,14 +730,19 @@ public final class ZeemanStructure {
         return Math.hypot(soFar, derivative * u);
     }
 
-    /** The largest component of v (ties within {@link UncoupledLabel#TIE} to the first index) and its weight. */
+    /**
+     * The largest component of v and its weight: the first index whose weight is within
+     * {@link UncoupledLabel#TIE} of the largest.
+     */
     private static UncoupledLabel dominant(double[] v, java.util.function.IntUnaryOperator twoJ,
             java.util.function.IntUnaryOperator twoMJ, java.util.function.IntUnaryOperator twoMI) {
+        double largest = 0;
+        for (double x : v) {
+            largest = Math.max(largest, x * x);
+        }
         int big = 0;
-        for (int r = 1; r < v.length; r++) {
-            if (v[r] * v[r] > v[big] * v[big] + UncoupledLabel.TIE) {
-                big = r;
-            }
+        while (v[big] * v[big] < largest - UncoupledLabel.TIE) {
+            big++;
         }
         return new UncoupledLabel(twoJ.applyAsInt(big), twoMJ.applyAsInt(big), twoMI.applyAsInt(big), v[big] * v[big]);
     }
