@@ -26,7 +26,9 @@ class QuantumDefectUncertaintyFilesTest {
         assertTrue(s.hasAllUncertainties());
         QuantumDefects na = (QuantumDefects) DataRegistry.builtIn().load("quantum-defects-na-23");
         assertTrue(na.statedLimitUncertaintyPerCm().isEmpty());
-        assertTrue(na.series().stream().allMatch(x -> x.uncertainties().isEmpty()));
+        // Na: no paper's uncertainties; our own, derived from the residuals (ResidualDerivedUncertaintyTest)
+        assertTrue(na.series().stream().allMatch(x -> x.residualDerived() && x.hasAllUncertainties()));
+        assertTrue(rb.series().stream().noneMatch(QuantumDefects.Series::residualDerived), "Rb-87: the papers'");
     }
 
     @Test
