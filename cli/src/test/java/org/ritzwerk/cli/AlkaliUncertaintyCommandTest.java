@@ -94,9 +94,10 @@ class AlkaliUncertaintyCommandTest {
     }
 
     /**
-     * Na 30s: no paper states its defects' uncertainty; the residual-derived one (from-residuals, check R of
-     * fit-residuals.txt: u(d0) = 1.1e-5 from the s levels' residuals) propagates to 1.026e-4 cm-1. Before,
-     * the row printed null.
+     * Na 30s: no paper states its defects' or its limit's uncertainty; the residual-derived ones (from-residuals,
+     * check R of fit-residuals.txt: u(d0) = 1.1e-5 from the s levels' residuals, 1.026e-4 cm-1 at 30s; the
+     * limit's 0.039 cm-1, check R limit) give sqrt(1.026e-4^2 + 0.039^2) = 0.0390001 cm-1. Before, the row
+     * printed null.
      */
     @Test
     void sodiumRydbergLevelsCarryTheResidualDerivedUncertainty() {
@@ -112,7 +113,7 @@ class AlkaliUncertaintyCommandTest {
             }
         }
         assertTrue(s30 != null, run.out());
-        assertEquals(1.0264e-4, s30.get("uncertainty_per_cm").asDouble(), 0.0002e-4, s30.toString());
+        assertEquals(Math.hypot(1.0264e-4, 0.039), s30.get("uncertainty_per_cm").asDouble(), 1e-9, s30.toString());
         assertFalse(run.err().contains("u cm-1 is not estimated"), run.err());
     }
 

@@ -35,6 +35,9 @@ import org.ritzwerk.data.QuantumDefects;
  * # limit: 1010029.1646 GHz                       (the limit in its publication's unit and digits)
  * # limit-from: -4271.676631815 MHz              (optional: the level it is measured from)
  * # limit-uncertainty: 0.0003                     (optional: the limit's standard uncertainty, in its unit)
+ * # limit-uncertainty-source: ...                 (optional: how it was obtained, where a paper did not state
+ *                                                 it; the built-in files' from-residuals estimate; not kept
+ *                                                 when a data set is written)
  * # limit-provenance: from-memory
  * # limit-source: ...
  * # limit-check: ...                              (optional: how the limit was checked)
@@ -97,8 +100,8 @@ public final class QuantumDefectFiles {
     /** The units {@code limit} and {@code limit-from} may carry. */
     public static final List<String> LIMIT_UNITS = List.of("cm-1", "THz", "GHz", "MHz", "kHz");
     private static final Set<String> KNOWN = Set.of("id", "title", "species", "source", "provenance", "version",
-            "limit-per-cm", "limit", "limit-from", "limit-uncertainty", "limit-provenance", "limit-source",
-            "limit-check",
+            "limit-per-cm", "limit", "limit-from", "limit-uncertainty", "limit-uncertainty-source", "limit-provenance",
+            "limit-source", "limit-check",
             "core-dipole-polarizability-au",
             "core-quadrupole-polarizability-au", "core-source", "core-check", "levels", "note");
 

@@ -75,11 +75,16 @@ r = formula - measured at n >= valid-from-n, with the level's stated uncertainty
 is turned into the error of d0 it stands for, dd0 = sqrt(r^2 + u^2) n*^3 / (2 R_M) (from dE/d delta
 = -2 R_M / n*^3), and u(d0) is their root mean square, rounded up to two digits (u(d2), ... written 0:
 the figure stands for the error of delta(n) as a whole; for Rb-85, whose paper states u(d0), the two
-are added in quadrature).  The residuals compare absolute levels, so the limit's error at the checked
-n is in them and a from-residuals series needs no separate limit uncertainty; but a constant offset
-of the limit is carried to higher n only as n*^-3, as a defect error is.  Series with no measured level
-at n >= valid-from-n (Li s, p, f; Rb-85 p) get none.  Check R prints u(d0), the levels used, u(E) at a
-few n and the highest checked level's residual beside its u(E).
+are added in quadrature).  A constant offset, as a limit error makes, would be carried to higher n
+only as n*^-3 that way, so an atom whose limit states no uncertainty (Na, Li-7, Rb-85; Li-6, K-40 and
+K-41, whose limits are scaled from a partner) gets one of our own too (check R limit;
+derived_limit_uncertainty): the largest over its series of the root mean square of sqrt(r^2 + u^2) over
+the checked levels, rounded up to two digits, written as limit-uncertainty with limit-uncertainty-source
+saying so.  It is constant in n, shared by the atom's levels (it cancels between two formula levels, as
+a limit's error does) and overlaps the u(d0) term at the checked n (counted twice there: cautious by up to
+a factor sqrt 2).  Rb-85, whose paper states its defects' uncertainties, then keeps the paper's.  Series
+with no measured level at n >= valid-from-n (Li s, p, f; Rb-85 p) get no u(d0) of ours.  Check R prints
+u(d0), the levels used, u(E) at a few n and the highest checked level's residual beside its u(E).
 
 Check 3 (core polarizabilities).  alpha_d against Marinescu et al.'s alpha_c (within 10 %); the
 core-polarization quantum defect of the Rb g series, delta = n^3 (alpha_d <r^-4> + alpha_q <r^-6>)/2
@@ -1063,6 +1068,11 @@ def main():
             report.append("# check 3 %s: %s" % (atom_id, core_check))
         else:
             report.append("# check 3 %s: %s" % (atom_id, core_check))
+        # the limit's uncertainty where none is stated (check R limit), before the header names it
+        derived_limit_uncertainty(report, atom_id, {
+            (l, two_j): [(n, level_check[(n, l, two_j)][0], 0.0 if e == 0 else uncertainty[(n, l, two_j)])
+                         for n, e, t in series_of(levels, l, two_j) if n >= valid_from[(l, two_j)]]
+            for l, two_j, coefficients, paper in series})
         # quantum-defect file
         species = "%s-%d I" % (symbol, a)
         papers = sorted({s[3].split(" (measured")[0].split(J_SPLIT_MARK)[0] for s in series})
@@ -1092,10 +1102,10 @@ def main():
                "or the limit has none (from-residuals, no paper's: check R in fit-residuals.txt; u-d0 is the root "
                "mean square over the measured levels at n >= valid-from-n of sqrt(r^2 + u^2) n*^3 / (2 R_M), r = "
                "formula - measured, u the level's stated uncertainty, rounded up to two digits, added in quadrature "
-               "to the paper's u-d0 where it states one, u-d2 to u-d8 the paper's or else 0; a from-residuals level "
-               "takes a limit error as counted in u-d0, since the residuals compare absolute levels, but carries it "
-               "to higher n only as n*^-3); empty: not stated, and a level of that series then has no uncertainty; "
-               "limit-uncertainty is the limit's in its unit; for from-memory rows no floor is added for the "
+               "to the paper's u-d0 where it states one, u-d2 to u-d8 the paper's or else 0); empty: not stated, and a "
+               "level of that series then has no uncertainty; limit-uncertainty is the limit's in its unit, stated "
+               "or, where limit-uncertainty-source says from-residuals, ours (a constant offset the checked levels "
+               "cannot tell from the limit, carried to every n; check R limit); for from-memory rows no floor is added for the "
                "formula's own residuals near valid-from-n (check U in fit-residuals.txt), so a level's uncertainty "
                "covers the published parameters only%s" % (TOLERANCE_PER_CM, atom_id, shared_note(atom_id)),
                "l,j,d0,d2,d4,d6,d8,u-d0,u-d2,u-d4,u-d6,u-d8,uncertainty-provenance,valid-from-n,provenance,source,"
@@ -1227,12 +1237,19 @@ def shifted_levels(atom_id, levels):
 
 
 def limit_lines(atom_id, limit):
-    """The header lines of the limit: as published (unit and digits), or derived in cm^-1."""
+    """The header lines of the limit: as published (unit and digits), or derived in cm^-1; its stated
+    uncertainty, or ours from the residuals (check R limit; in cm^-1, the unit of every such limit)."""
+    derived = []
+    if atom_id in DERIVED_LIMIT_UNCERTAINTIES:
+        u, text = DERIVED_LIMIT_UNCERTAINTIES[atom_id]
+        derived = ["# limit-uncertainty: %s" % fmt_u(u), "# limit-uncertainty-source: %s" % text]
     if atom_id not in PUBLISHED_LIMITS:
-        return ["# limit-per-cm: %s" % fmt(limit)]
+        return ["# limit-per-cm: %s" % fmt(limit)] + derived
     text, origin = PUBLISHED_LIMITS[atom_id]
+    assert not derived or text.endswith(" cm-1"), atom_id
     return (["# limit: %s" % text] + (["# limit-from: %s" % origin] if origin else [])
-            + (["# limit-uncertainty: %s" % LIMIT_UNCERTAINTIES[atom_id]] if atom_id in LIMIT_UNCERTAINTIES else []))
+            + (["# limit-uncertainty: %s" % LIMIT_UNCERTAINTIES[atom_id]] if atom_id in LIMIT_UNCERTAINTIES
+               else derived))
 
 
 def fmt_u(u):
@@ -1242,8 +1259,41 @@ def fmt_u(u):
     return text
 
 
+# Per atom whose limit states no uncertainty: (ours from the residuals in cm^-1, the header's words);
+# filled by derived_limit_uncertainty before the atom's files are written.
+DERIVED_LIMIT_UNCERTAINTIES = {}
+
+
+def derived_limit_uncertainty(report, atom_id, checked_by_series):
+    """Check R limit: for an atom whose limit states no uncertainty, the largest over its series of the
+    root mean square of sqrt(r^2 + u^2) over the series' checked levels (n >= valid-from-n), rounded up
+    to two digits: a constant offset the checks cannot tell from the limit, carried to every n."""
+    if atom_id in LIMIT_UNCERTAINTIES:
+        return
+    worst = None
+    for (l, two_j), checked in checked_by_series.items():
+        if checked:
+            rms = math.sqrt(sum(r * r + u * u for n, r, u in checked) / len(checked))
+            if worst is None or rms > worst[0]:
+                worst = (rms, l, two_j, checked)
+    if worst is None:
+        return
+    rms, l, two_j, checked = worst
+    ns = [n for n, r, u in checked]
+    where = "%s%s n = %s" % (L_LETTERS[l], j_text(two_j), "%d" % ns[0] if len(ns) == 1 else "%d-%d" % (ns[0], ns[-1]))
+    text = ("from-residuals (ours, not a paper's: the largest root mean square over the series of sqrt(r^2 + u^2), "
+            "r = formula - measured at the checked levels, here %s: %.3e cm-1, rounded up; check R limit in "
+            "fit-residuals.txt)" % (where, rms))
+    DERIVED_LIMIT_UNCERTAINTIES[atom_id] = (round_up_2(rms), text)
+    report.append("# check R limit %s: the limit states no uncertainty; ours %s cm-1 = the largest root mean square "
+                  "of sqrt(r^2 + u^2) over a series' checked levels, %s (%.3e), rounded up to two digits" % (
+                      atom_id, fmt_u(round_up_2(rms)), where, rms))
+
+
 def limit_uncertainty_per_cm(atom_id):
     """The limit's standard uncertainty in cm^-1, converted as QuantumDefectFiles converts it, or None."""
+    if atom_id in DERIVED_LIMIT_UNCERTAINTIES:
+        return DERIVED_LIMIT_UNCERTAINTIES[atom_id][0]
     if atom_id not in LIMIT_UNCERTAINTIES:
         return None
     unit = PUBLISHED_LIMITS[atom_id][0].split()[1]
@@ -1280,7 +1330,8 @@ def check_u(report, atom_id, l, two_j, coefficients, us, valid_from, limit, r_m,
 
 def needs_derived(atom_id, coefficients, us):
     """Whether a series gets an uncertainty derived from its residuals (check R): when its paper states
-    no uncertainty for some coefficient, or its atom's limit has none (then a level could get none)."""
+    no uncertainty for some coefficient, or its atom's limit has none, stated or ours (then a level
+    could get none)."""
     return len(us) < len(significant(coefficients)) or limit_uncertainty_per_cm(atom_id) is None
 
 
