@@ -48,8 +48,28 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
      * @param uncertainties the published standard uncertainties of d0, d2, d4, ...: empty when none is
      *                     stated, else one per coefficient, each finite and not negative or NaN for
      *                     a coefficient whose uncertainty is not stated
+     * @param residualDerived whether the uncertainties are not a paper's but our own estimate from the
+     *                     series' residuals against measured levels (file value {@code from-residuals}):
+     *                     those residuals compare absolute energies, so the limit's error at the checked
+     *                     levels is counted in them, and a level from this series gets an uncertainty even
+     *                     where the limit states none (that limit term taken as 0); false for the
+     *                     published (or recalled) uncertainties of a paper
      */
-    public record Series(int l, int twoJ, List<Double> coefficients, int validFromN, List<Double> uncertainties) {
+    public record Series(int l, int twoJ, List<Double> coefficients, int validFromN, List<Double> uncertainties,
+            boolean residualDerived) {
+
+        /**
+         * A series with a paper's stated (or recalled) uncertainties, not residual-derived ones.
+         *
+         * @param l             orbital quantum number
+         * @param twoJ          twice j
+         * @param coefficients  d0, d2, d4, ... (at least d0); finite
+         * @param validFromN    the lowest n the parameters are meant for
+         * @param uncertainties empty, or one standard uncertainty per coefficient (NaN where not stated)
+         */
+        public Series(int l, int twoJ, List<Double> coefficients, int validFromN, List<Double> uncertainties) {
+            this(l, twoJ, coefficients, validFromN, uncertainties, false);
+        }
 
         /**
          * A series without stated uncertainties.
@@ -60,7 +80,7 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
          * @param validFromN   the lowest n the parameters are meant for
          */
         public Series(int l, int twoJ, List<Double> coefficients, int validFromN) {
-            this(l, twoJ, coefficients, validFromN, List.of());
+            this(l, twoJ, coefficients, validFromN, List.of(), false);
         }
 
         /**
@@ -80,6 +100,8 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
          * @param validFromN   the lowest n the parameters are meant for
          * @param uncertainties empty, or one standard uncertainty per coefficient (finite, not
          *                     negative, or NaN where not stated)
+         * @param residualDerived whether they are our estimate from the series' residuals (needs
+         *                     every coefficient's uncertainty)
          */
         public Series {
             if (l < 0 || twoJ < 0 || Math.abs(twoJ - 2 * l) != 1) {
@@ -97,6 +119,11 @@ public record QuantumDefects(DataSetInfo info, Species species, double limitPerC
             if (!uncertainties.isEmpty() && uncertainties.size() != coefficients.size()) {
                 throw new IllegalArgumentException("give one uncertainty per quantum-defect coefficient (or none), got "
                         + uncertainties.size() + " for " + coefficients.size() + " coefficients");
+            }
+            if (residualDerived
+                    && (uncertainties.isEmpty() || uncertainties.stream().anyMatch(u -> Double.isNaN(u)))) {
+                throw new IllegalArgumentException("residual-derived uncertainties must be given for every coefficient,"
+                        + " got " + uncertainties);
             }
             for (double u : uncertainties) {
                 if (!Double.isNaN(u) && !(u >= 0 && u < Double.POSITIVE_INFINITY)) {

@@ -85,17 +85,43 @@ class AlkaliUncertaintyCommandTest {
         assertEquals(0, levels.code(), levels.err());
         assertTrue(levels.err().contains("note: Rb-87 I: 4 level(s) (10s 2S1/2, 11s 2S1/2, 12s 2S1/2, 13s 2S1/2) are "
                 + "Rydberg-Ritz formula level(s)"), levels.err());
-        CliTest.Run k = CliTest.run("lines", "--species", "K-39 I", "--ladder", "4s1/2,4p3/2,60s1/2", "--format",
+        // Li-7 s: no stated defect uncertainty and no measured level above valid-from-n to derive one from
+        CliTest.Run li = CliTest.run("lines", "--species", "Li-7 I", "--ladder", "2s1/2,2p3/2,30s1/2", "--format",
                 "json");
-        assertEquals(0, k.code(), k.err());
-        assertTrue(k.err().contains("note: u Hz: not estimated ('-', null in JSON) for a step with a level whose "
-                + "energy has no stated uncertainty (60s 2S1/2)"), k.err());
+        assertEquals(0, li.code(), li.err());
+        assertTrue(li.err().contains("note: u Hz: not estimated ('-', null in JSON) for a step with a level whose "
+                + "energy has no stated uncertainty (30s 2S1/2)"), li.err());
+    }
+
+    /**
+     * Na 30s: no paper states its defects' or its limit's uncertainty; the residual-derived ones (from-residuals,
+     * check R of fit-residuals.txt: u(d0) = 1.1e-5 from the s levels' residuals, 1.026e-4 cm-1 at 30s; the
+     * limit's 0.039 cm-1, check R limit) give sqrt(1.026e-4^2 + 0.039^2) = 0.0390001 cm-1. Before, the row
+     * printed null.
+     */
+    @Test
+    void sodiumRydbergLevelsCarryTheResidualDerivedUncertainty() {
+        CliTest.Run run = CliTest.run("levels", "--species", "Na-23 I", "--n-max", "30", "--l-max", "0", "--format",
+                "json");
+        assertEquals(0, run.code(), run.err());
+        JsonNode s30 = null;
+        for (String line : run.out().strip().split("\\R")) {
+            JsonNode node = JSON.readTree(line);
+            assertFalse(node.get("uncertainty_per_cm").isNull(), line);
+            if (node.get("label").asString().startsWith("30s")) {
+                s30 = node;
+            }
+        }
+        assertTrue(s30 != null, run.out());
+        assertEquals(Math.hypot(1.0264e-4, 0.039), s30.get("uncertainty_per_cm").asDouble(), 1e-9, s30.toString());
+        assertFalse(run.err().contains("u cm-1 is not estimated"), run.err());
     }
 
     @Test
     void notEstimatedIsNullAndSaid() {
-        // Na: no uncertainty stated for the quantum defects of Lorenzen & Niemax 1983
-        CliTest.Run run = CliTest.run("levels", "--species", "Na-23 I", "--n-max", "30", "--l-max", "0", "--format",
+        // Li-7 s: no uncertainty stated for the quantum defects of Goy et al. 1986, none derivable (no measured
+        // level at n >= valid-from-n = 10)
+        CliTest.Run run = CliTest.run("levels", "--species", "Li-7 I", "--n-max", "30", "--l-max", "0", "--format",
                 "json");
         assertEquals(0, run.code(), run.err());
         boolean sawNull = false;
@@ -114,7 +140,7 @@ class AlkaliUncertaintyCommandTest {
         }
         assertTrue(sawNull && sawValue, run.out());
         assertTrue(run.err().contains("u cm-1 is not estimated"), run.err());
-        CliTest.Run lines = CliTest.run("lines", "--species", "Na-23 I", "--from", "300nm", "--to", "420nm",
+        CliTest.Run lines = CliTest.run("lines", "--species", "Li-7 I", "--from", "225nm", "--to", "240nm",
                 "--n-max", "30", "--l-max", "1", "--format", "csv");
         assertEquals(0, lines.code(), lines.err());
         assertTrue(lines.out().lines().findFirst().orElseThrow().contains("uncertainty_nm"), lines.out());

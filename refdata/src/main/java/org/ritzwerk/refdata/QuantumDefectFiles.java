@@ -35,6 +35,9 @@ import org.ritzwerk.data.QuantumDefects;
  * # limit: 1010029.1646 GHz                       (the limit in its publication's unit and digits)
  * # limit-from: -4271.676631815 MHz              (optional: the level it is measured from)
  * # limit-uncertainty: 0.0003                     (optional: the limit's standard uncertainty, in its unit)
+ * # limit-uncertainty-source: ...                 (optional: how it was obtained, where a paper did not state
+ *                                                 it; the built-in files' from-residuals estimate; not kept
+ *                                                 when a data set is written)
  * # limit-provenance: from-memory
  * # limit-source: ...
  * # limit-check: ...                              (optional: how the limit was checked)
@@ -77,20 +80,28 @@ public final class QuantumDefectFiles {
     /**
      * The columns of a file that states the coefficients' standard uncertainties, in order: as
      * {@link #COLUMNS} with {@code u-d0} to {@code u-d8} (empty where not stated) and
-     * {@code uncertainty-provenance} (published or from-memory; empty when the row states none) after
+     * {@code uncertainty-provenance} (published or from-memory, or {@link #RESIDUAL_DERIVED}; empty when the
+     * row states none) after
      * {@code d8}.
      */
     public static final List<String> COLUMNS_WITH_UNCERTAINTIES = List.of("l", "j", "d0", "d2", "d4", "d6", "d8",
             "u-d0", "u-d2", "u-d4", "u-d6", "u-d8", "uncertainty-provenance", "valid-from-n", "provenance", "source",
             "checked");
 
+    /**
+     * The {@code uncertainty-provenance} of a row whose u-d0 to u-d8 are not a paper's but our own estimate
+     * from the series' residuals against the measured levels ({@link QuantumDefects.Series#residualDerived()};
+     * how the built-in files derive them: check R of {@code rydberg/fit-residuals.txt}).
+     */
+    public static final String RESIDUAL_DERIVED = "from-residuals";
+
     private static final List<String> REQUIRED = List.of("id", "title", "species", "source", "provenance", "version",
             "limit-provenance", "limit-source");
     /** The units {@code limit} and {@code limit-from} may carry. */
     public static final List<String> LIMIT_UNITS = List.of("cm-1", "THz", "GHz", "MHz", "kHz");
     private static final Set<String> KNOWN = Set.of("id", "title", "species", "source", "provenance", "version",
-            "limit-per-cm", "limit", "limit-from", "limit-uncertainty", "limit-provenance", "limit-source",
-            "limit-check",
+            "limit-per-cm", "limit", "limit-from", "limit-uncertainty", "limit-uncertainty-source", "limit-provenance",
+            "limit-source", "limit-check",
             "core-dipole-polarizability-au",
             "core-quadrupole-polarizability-au", "core-source", "core-check", "levels", "note");
 
@@ -300,7 +311,7 @@ public final class QuantumDefectFiles {
                     boolean given = i < u.size() && !Double.isNaN(u.get(i));
                     out.append(',').append(given ? Double.toString(u.get(i)) : "");
                 }
-                out.append(',').append(u.isEmpty() ? "" : kind);
+                out.append(',').append(u.isEmpty() ? "" : series.residualDerived() ? RESIDUAL_DERIVED : kind);
             }
             out.append(',').append(series.validFromN()).append(',').append(kind)
                     .append(",see the header source,not kept in the data set\n");
@@ -332,6 +343,7 @@ public final class QuantumDefectFiles {
         }
         List<Double> uncertainties = new ArrayList<>();
         String[] f = all;
+        boolean residualDerived = withUncertainties && all[12].strip().equals(RESIDUAL_DERIVED);
         if (withUncertainties) {
             uncertainties = uncertainties(all, line, number, source, problems);
             f = new String[COLUMNS.size()];
@@ -391,7 +403,8 @@ public final class QuantumDefectFiles {
             return;
         }
         try {
-            series.add(new QuantumDefects.Series(l, twoJ, coefficients, validFrom, uncertainties));
+            series.add(new QuantumDefects.Series(l, twoJ, coefficients, validFrom, uncertainties,
+                    residualDerived && !uncertainties.isEmpty()));
         } catch (IllegalArgumentException e) {
             problems.add(new DataProblem(source, number, 0, "qd.bad-series", e.getMessage(), line));
         }
@@ -427,11 +440,12 @@ public final class QuantumDefectFiles {
         String kind = f[12].strip();
         if (any && kind.isEmpty()) {
             problems.add(new DataProblem(source, number, 0, "qd.bad-uncertainty", "uncertainty-provenance is empty;"
-                    + " a row that states uncertainties says how they were obtained (published or from-memory)", line));
+                    + " a row that states uncertainties says how they were obtained (published, from-memory or"
+                    + " from-residuals)", line));
         } else if (!any && !kind.isEmpty()) {
             problems.add(new DataProblem(source, number, 0, "qd.bad-uncertainty", "uncertainty-provenance '" + kind
                     + "' is given but no u-d0 to u-d8", line));
-        } else if (any) {
+        } else if (any && !kind.equals(RESIDUAL_DERIVED)) {
             try {
                 Provenance.Kind.fromId(kind);
             } catch (IllegalArgumentException e) {

@@ -25,8 +25,11 @@ class QuantumDefectUncertaintyFilesTest {
         assertEquals(List.of(0.0000008, 0.0002), s.uncertainties());
         assertTrue(s.hasAllUncertainties());
         QuantumDefects na = (QuantumDefects) DataRegistry.builtIn().load("quantum-defects-na-23");
-        assertTrue(na.statedLimitUncertaintyPerCm().isEmpty());
-        assertTrue(na.series().stream().allMatch(x -> x.uncertainties().isEmpty()));
+        // Na's limit states no uncertainty; the built-in file carries ours (check R limit, from-residuals)
+        assertEquals(0.039, na.statedLimitUncertaintyPerCm().orElseThrow(), 1e-15);
+        // Na: no paper's uncertainties; our own, derived from the residuals (ResidualDerivedUncertaintyTest)
+        assertTrue(na.series().stream().allMatch(x -> x.residualDerived() && x.hasAllUncertainties()));
+        assertTrue(rb.series().stream().noneMatch(QuantumDefects.Series::residualDerived), "Rb-87: the papers'");
     }
 
     @Test

@@ -645,7 +645,10 @@ public final class AlkaliAtom {
                         + s.validFromN() + " and no measured energy was given for this level; not extrapolated");
             }
             double e = fitEnergy(s, state.n());
-            double u = s.hasAllUncertainties() ? rydbergRitzEnergyUncertainty(defects.limitUncertaintyPerCm(), r,
+            // residual-derived uncertainties count the limit's error (see QuantumDefects.Series.residualDerived)
+            double uLimit = Double.isNaN(defects.limitUncertaintyPerCm()) && s.residualDerived() ? 0
+                    : defects.limitUncertaintyPerCm();
+            double u = s.hasAllUncertainties() ? rydbergRitzEnergyUncertainty(uLimit, r,
                     s.coefficients(), s.uncertainties(), state.n()) : Double.NaN;
             return new Level(state, e, state.n() - defect(s.coefficients(), state.n()), LevelOrigin.QUANTUM_DEFECT_FIT,
                     u);

@@ -44,7 +44,9 @@ Where the numbers come from, and how sure we are of them.
 Uncertainties.  Each quantum-defect row states its coefficients' standard uncertainties (u-d0 to
 u-d8; SERIES_UNCERTAINTIES, recalled from the series' paper, marked from-memory) where recalled, and
 each header the limit's (limit-uncertainty; LIMIT_UNCERTAINTIES); where none is stated, the file says
-nothing and the engine gives the levels none.  Check U writes what they propagate to.  The measured
+nothing and the engine gives the levels none.  Check U writes what they propagate to.  Where a series'
+paper states no uncertainty, or its atom's limit has none, the series gets our own estimate instead,
+marked from-residuals (check R below; never as if a paper stated it).  The measured
 levels' column uncertainty is half a unit in the ASD's last digit (plus, for a shared isotope, the
 estimated neglected isotope shift).
 
@@ -64,6 +66,25 @@ the expansion does not follow).  A mistyped digit shows as a residual far above 
 a level passes when its residual, expressed as an energy, is within REGULARITY_PER_CM (1 cm^-1:
 the scatter of the older measurements of the lighter atoms reaches 0.5 cm^-1, so this check sees
 mistakes in the units digit and above; finer digits rest on the D lines and on check 1).
+
+Check R (from-residuals uncertainties; derived_uncertainties).  For a series whose paper states no
+coefficient uncertainty (Na, K, Li, Cs d3/2 and f), or whose atom's limit states none (Rb-85, and the
+isotopes with a scaled limit: Li-6, K-40, K-41, computed from their own scaled levels, so the partner's
+figure applies scaled with the estimated isotope shift of those levels included), each check-1 residual
+r = formula - measured at n >= valid-from-n, with the level's stated uncertainty u added in quadrature,
+is turned into the error of d0 it stands for, dd0 = sqrt(r^2 + u^2) n*^3 / (2 R_M) (from dE/d delta
+= -2 R_M / n*^3), and u(d0) is their root mean square, rounded up to two digits (u(d2), ... written 0:
+the figure stands for the error of delta(n) as a whole; for Rb-85, whose paper states u(d0), the two
+are added in quadrature).  A constant offset, as a limit error makes, would be carried to higher n
+only as n*^-3 that way, so an atom whose limit states no uncertainty (Na, Li-7, Rb-85; Li-6, K-40 and
+K-41, whose limits are scaled from a partner) gets one of our own too (check R limit;
+derived_limit_uncertainty): the largest over its series of the root mean square of sqrt(r^2 + u^2) over
+the checked levels, rounded up to two digits, written as limit-uncertainty with limit-uncertainty-source
+saying so.  It is constant in n, shared by the atom's levels (it cancels between two formula levels, as
+a limit's error does) and overlaps the u(d0) term at the checked n (counted twice there: cautious by up to
+a factor sqrt 2).  Rb-85, whose paper states its defects' uncertainties, then keeps the paper's.  Series
+with no measured level at n >= valid-from-n (Li s, p, f; Rb-85 p) get no u(d0) of ours.  Check R prints
+u(d0), the levels used, u(E) at a few n and the highest checked level's residual beside its u(E).
 
 Check 3 (core polarizabilities).  alpha_d against Marinescu et al.'s alpha_c (within 10 %); the
 core-polarization quantum defect of the Rb g series, delta = n^3 (alpha_d <r^-4> + alpha_q <r^-6>)/2
@@ -198,6 +219,8 @@ SERIES_UNCERTAINTIES = {
     "cs-133": DEIGLMAYR_2016_U,
 }
 UNCERTAINTY_PROVENANCE = "from-memory"
+# Our own derivation, not a paper's: u(d0) from the series' residuals against the measured levels (check R).
+RESIDUAL_PROVENANCE = "from-residuals"
 
 # Ionisation limits' standard uncertainties, in the unit of PUBLISHED_LIMITS (header 'limit-uncertainty'),
 # as each publication prints it: Cs (Deiglmayr et al. 2016) and K-39 (Peper et al. 2019, 22 systematic
@@ -1045,6 +1068,11 @@ def main():
             report.append("# check 3 %s: %s" % (atom_id, core_check))
         else:
             report.append("# check 3 %s: %s" % (atom_id, core_check))
+        # the limit's uncertainty where none is stated (check R limit), before the header names it
+        derived_limit_uncertainty(report, atom_id, {
+            (l, two_j): [(n, level_check[(n, l, two_j)][0], 0.0 if e == 0 else uncertainty[(n, l, two_j)])
+                         for n, e, t in series_of(levels, l, two_j) if n >= valid_from[(l, two_j)]]
+            for l, two_j, coefficients, paper in series})
         # quantum-defect file
         species = "%s-%d I" % (symbol, a)
         papers = sorted({s[3].split(" (measured")[0].split(J_SPLIT_MARK)[0] for s in series})
@@ -1070,22 +1098,40 @@ def main():
                "computes it from the atomic mass in nuclear/isotopes.csv; valid-from-n is the lowest n from "
                "which the formula agrees with the measured levels within %.2f cm-1; below it the engine uses "
                "levels-%s.csv; u-d0 to u-d8 are the coefficients' standard uncertainties as recalled from the series' "
-               "paper (column uncertainty-provenance; empty: not stated, and a level of that series then has no "
-               "uncertainty), limit-uncertainty the limit's in its unit; no floor is added for the formula's own "
-               "residuals near valid-from-n (check U in fit-residuals.txt: one to three measured levels per series "
-               "do not show how they fall with n), so a level's uncertainty covers the published parameters "
-               "only%s" % (TOLERANCE_PER_CM, atom_id, shared_note(atom_id)),
+               "paper (column uncertainty-provenance from-memory), or our own estimate where the paper states none "
+               "or the limit has none (from-residuals, no paper's: check R in fit-residuals.txt; u-d0 is the root "
+               "mean square over the measured levels at n >= valid-from-n of sqrt(r^2 + u^2) n*^3 / (2 R_M), r = "
+               "formula - measured, u the level's stated uncertainty, rounded up to two digits, added in quadrature "
+               "to the paper's u-d0 where it states one, u-d2 to u-d8 the paper's or else 0); empty: not stated, and a "
+               "level of that series then has no uncertainty; limit-uncertainty is the limit's in its unit, stated "
+               "or, where limit-uncertainty-source says from-residuals, ours (a constant offset the checked levels "
+               "cannot tell from the limit, carried to every n; check R limit); for from-memory rows no floor is added for the "
+               "formula's own residuals near valid-from-n (check U in fit-residuals.txt), so a level's uncertainty "
+               "covers the published parameters only%s" % (TOLERANCE_PER_CM, atom_id, shared_note(atom_id)),
                "l,j,d0,d2,d4,d6,d8,u-d0,u-d2,u-d4,u-d6,u-d8,uncertainty-provenance,valid-from-n,provenance,source,"
                "checked"]
         stated = SERIES_UNCERTAINTIES.get(atom_id, {})
         for l, two_j, coefficients, paper in series:
             cs = list(coefficients) + [0.0] * (5 - len(coefficients))
             us = stated.get((l, two_j), [])
+            kind = UNCERTAINTY_PROVENANCE if us else ""
+            # (the ground level is the exact zero of the scale: u = 0, as the levels file writes it)
+            checked = [(n, level_check[(n, l, two_j)][0], 0.0 if e == 0 else uncertainty[(n, l, two_j)])
+                       for n, e, t in series_of(levels, l, two_j) if n >= valid_from[(l, two_j)]]
+            if needs_derived(atom_id, coefficients, us) and checked:
+                us, derived = derived_uncertainties(coefficients, us, checked, r_m)
+                kind = RESIDUAL_PROVENANCE
+                check_r(report, atom_id, l, two_j, coefficients, us, derived, checked, valid_from[(l, two_j)],
+                        r_m)
+            elif needs_derived(atom_id, coefficients, us):
+                report.append("# check R %s %s%s: no measured level at n >= valid-from-n = %d, so no uncertainty "
+                              "is derived (the levels keep none)" % (atom_id, L_LETTERS[l], j_text(two_j),
+                                                                      valid_from[(l, two_j)]))
             u_text = ",".join(fmt_u(us[i]) if i < len(us) else "" for i in range(5))
             out.append("%d,%s,%s,%s,%s,%d,from-memory,%s,%s" % (
-                l, j_text(two_j), ",".join(fmt(c) for c in cs), u_text, UNCERTAINTY_PROVENANCE if us else "",
+                l, j_text(two_j), ",".join(fmt(c) for c in cs), u_text, kind,
                 valid_from[(l, two_j)], paper.replace(",", ";"), row_check[(l, two_j)].replace(",", ";")))
-            if us:
+            if us and kind != RESIDUAL_PROVENANCE:
                 check_u(report, atom_id, l, two_j, coefficients, us, valid_from[(l, two_j)], limit, r_m,
                         level_check, problems)
         with open("quantum-defects-%s.csv" % atom_id, "w") as f:
@@ -1191,12 +1237,19 @@ def shifted_levels(atom_id, levels):
 
 
 def limit_lines(atom_id, limit):
-    """The header lines of the limit: as published (unit and digits), or derived in cm^-1."""
+    """The header lines of the limit: as published (unit and digits), or derived in cm^-1; its stated
+    uncertainty, or ours from the residuals (check R limit; in cm^-1, the unit of every such limit)."""
+    derived = []
+    if atom_id in DERIVED_LIMIT_UNCERTAINTIES:
+        u, text = DERIVED_LIMIT_UNCERTAINTIES[atom_id]
+        derived = ["# limit-uncertainty: %s" % fmt_u(u), "# limit-uncertainty-source: %s" % text]
     if atom_id not in PUBLISHED_LIMITS:
-        return ["# limit-per-cm: %s" % fmt(limit)]
+        return ["# limit-per-cm: %s" % fmt(limit)] + derived
     text, origin = PUBLISHED_LIMITS[atom_id]
+    assert not derived or text.endswith(" cm-1"), atom_id
     return (["# limit: %s" % text] + (["# limit-from: %s" % origin] if origin else [])
-            + (["# limit-uncertainty: %s" % LIMIT_UNCERTAINTIES[atom_id]] if atom_id in LIMIT_UNCERTAINTIES else []))
+            + (["# limit-uncertainty: %s" % LIMIT_UNCERTAINTIES[atom_id]] if atom_id in LIMIT_UNCERTAINTIES
+               else derived))
 
 
 def fmt_u(u):
@@ -1206,8 +1259,41 @@ def fmt_u(u):
     return text
 
 
+# Per atom whose limit states no uncertainty: (ours from the residuals in cm^-1, the header's words);
+# filled by derived_limit_uncertainty before the atom's files are written.
+DERIVED_LIMIT_UNCERTAINTIES = {}
+
+
+def derived_limit_uncertainty(report, atom_id, checked_by_series):
+    """Check R limit: for an atom whose limit states no uncertainty, the largest over its series of the
+    root mean square of sqrt(r^2 + u^2) over the series' checked levels (n >= valid-from-n), rounded up
+    to two digits: a constant offset the checks cannot tell from the limit, carried to every n."""
+    if atom_id in LIMIT_UNCERTAINTIES:
+        return
+    worst = None
+    for (l, two_j), checked in checked_by_series.items():
+        if checked:
+            rms = math.sqrt(sum(r * r + u * u for n, r, u in checked) / len(checked))
+            if worst is None or rms > worst[0]:
+                worst = (rms, l, two_j, checked)
+    if worst is None:
+        return
+    rms, l, two_j, checked = worst
+    ns = [n for n, r, u in checked]
+    where = "%s%s n = %s" % (L_LETTERS[l], j_text(two_j), "%d" % ns[0] if len(ns) == 1 else "%d-%d" % (ns[0], ns[-1]))
+    text = ("from-residuals (ours, not a paper's: the largest root mean square over the series of sqrt(r^2 + u^2), "
+            "r = formula - measured at the checked levels, here %s: %.3e cm-1, rounded up; check R limit in "
+            "fit-residuals.txt)" % (where, rms))
+    DERIVED_LIMIT_UNCERTAINTIES[atom_id] = (round_up_2(rms), text)
+    report.append("# check R limit %s: the limit states no uncertainty; ours %s cm-1 = the largest root mean square "
+                  "of sqrt(r^2 + u^2) over a series' checked levels, %s (%.3e), rounded up to two digits" % (
+                      atom_id, fmt_u(round_up_2(rms)), where, rms))
+
+
 def limit_uncertainty_per_cm(atom_id):
     """The limit's standard uncertainty in cm^-1, converted as QuantumDefectFiles converts it, or None."""
+    if atom_id in DERIVED_LIMIT_UNCERTAINTIES:
+        return DERIVED_LIMIT_UNCERTAINTIES[atom_id][0]
     if atom_id not in LIMIT_UNCERTAINTIES:
         return None
     unit = PUBLISHED_LIMITS[atom_id][0].split()[1]
@@ -1240,6 +1326,66 @@ def check_u(report, atom_id, l, two_j, coefficients, us, valid_from, limit, r_m,
                       atom_id, L_LETTERS[l], j_text(two_j), valid_from,
                       *(ritz_uncertainty(u_limit, r_m, coefficients, us, n) for n in (valid_from, 30, 60, 100)),
                       u_limit, valid_from, "%.4f cm-1" % max(edge) if edge else "no measured level"))
+
+
+def needs_derived(atom_id, coefficients, us):
+    """Whether a series gets an uncertainty derived from its residuals (check R): when its paper states
+    no uncertainty for some coefficient, or its atom's limit has none, stated or ours (then a level
+    could get none)."""
+    return len(us) < len(significant(coefficients)) or limit_uncertainty_per_cm(atom_id) is None
+
+
+def significant(coefficients):
+    """The coefficients without trailing zeros (the reader drops those; they can carry no u)."""
+    cs = list(coefficients)
+    while len(cs) > 1 and cs[-1] == 0:
+        cs.pop()
+    return cs
+
+
+def round_up_2(x):
+    """x rounded up to two significant digits (a stated uncertainty is not rounded down)."""
+    exponent = math.floor(math.log10(x)) - 1
+    value = math.ceil(round(x / 10 ** exponent, 9)) * 10 ** exponent
+    return float("%.2g" % value)
+
+
+def defect_equivalent(residual, u_level, n, coefficients, r_m):
+    """The error of d0 a level's residual stands for: dE = 2 R_M dd0 / n*^3 (to first order), so
+    dd0 = sqrt(residual^2 + u_level^2) n*^3 / (2 R_M); the level's own stated uncertainty is added in
+    quadrature, since a residual below it does not show the formula better than that."""
+    n_star = n - defect(coefficients, n)
+    return math.sqrt(residual ** 2 + u_level ** 2) * n_star ** 3 / (2 * r_m)
+
+
+def derived_uncertainties(coefficients, us, checked, r_m):
+    """Check R: u(d0) from the series' own residuals at the checked levels (n >= valid-from-n):
+    the root mean square of defect_equivalent over them, rounded up to two digits.  Where the paper
+    states u(d0) (Rb-85, whose limit has none) the two are added in quadrature and the paper's
+    u(d2)... kept; otherwise u(d2)... are written 0: the derived u(d0) stands for the error of
+    delta(n) as a whole at the checked n.  Returns (the row's u list, the unrounded RMS)."""
+    cs = significant(coefficients)
+    rms = math.sqrt(sum(defect_equivalent(r, u, n, coefficients, r_m) ** 2 for n, r, u in checked) / len(checked))
+    if len(us) == len(cs):
+        return [round_up_2(math.hypot(us[0], rms))] + list(us[1:]), rms
+    return [round_up_2(rms)] + [0.0] * (len(cs) - 1), rms
+
+
+def check_r(report, atom_id, l, two_j, coefficients, us, rms, checked, valid_from, r_m):
+    """Check R: the derived u(d0), the levels it comes from, and what it propagates to (limit error
+    taken as counted in it where the limit's is not stated; see derived_uncertainties)."""
+    u_limit = limit_uncertainty_per_cm(atom_id) or 0.0
+    ns = [n for n, r, u in checked]
+    top = checked[-1]
+    report.append("# check R %s %s%s: u(d0) = %.3e (written %s) = RMS over the %d measured level%s n = %s of "
+                  "sqrt(r^2 + u^2) n*^3 / (2 R_M); u(E) at n = %d, 30, 60, 100: %.2e, %.2e, %.2e, %.2e cm-1; "
+                  "the highest checked level n = %d: residual %+.4f cm-1 against u(E) %.4f" % (
+                      atom_id, L_LETTERS[l], j_text(two_j), rms, fmt_u(us[0]), len(checked),
+                      "" if len(checked) == 1 else "s", "%d" % ns[0] if len(ns) == 1 else "%d-%d" % (ns[0], ns[-1]),
+                      valid_from,
+                      *(ritz_uncertainty(u_limit, r_m, significant(coefficients), us, n)
+                        for n in (valid_from, 30, 60, 100)),
+                      top[0], top[1], ritz_uncertainty(u_limit, r_m, significant(coefficients), us, top[0])))
 
 
 def shared_note(atom_id):
