@@ -16,8 +16,8 @@ import org.ritzwerk.refdata.DataContext;
  * {@code levels --hyperfine --state STATE}: the F levels of one alkali level (a Rydberg level with
  * n*^-3-scaled constants, or a ground, first p or Cs 7p level with measured ones), each with its energy and
  * its shift from the hyperfine-free level, and A and B with their standard uncertainties (for scaled constants
- * including the n*^-3 law's own error; {@code -}, null in JSON, where none is stated). Formatting only: the constants and F levels come from
- * {@link DataContext#hyperfineConstants} and {@link DataContext#hyperfineLevels}.
+ * including the n*^-3 law's own error; {@code -}, null in JSON, where none is stated). Formatting only: the
+ * constants and F levels come from {@link DataContext#hyperfineConstants} and {@link DataContext#hyperfineLevels}.
  */
 final class RydbergHyperfineLevels {
 

@@ -126,8 +126,9 @@ class IdentifyCommandTest {
         assertFalse(java.util.regex.Pattern.compile("(?m)^\\d+ +\\d+ +\\S+ +matched ").matcher(run.out()).find(),
                 run.out());
         // the summary counts each reason the table gives (a peak with two counts under both)
-        java.util.regex.Matcher summary = java.util.regex.Pattern.compile("32 peaks: 0 matched, ([1-9]) ambiguous \\(\\1"
-                + " of a species not shown beyond chance(; ([1-9]) that a stray peak may explain)?\\), ").matcher(run.out());
+        java.util.regex.Matcher summary = java.util.regex.Pattern.compile("32 peaks: 0 matched, ([1-9]) ambiguous "
+                + "\\(\\1 of a species not shown beyond chance(; ([1-9]) that a stray peak may explain)?\\), ")
+                .matcher(run.out());
         assertTrue(summary.find(), run.out());
         // each ambiguous peak says why
         assertTrue(java.util.regex.Pattern
