@@ -169,32 +169,6 @@ final class Catalyst {
         }
     }
 
-    /**
-     * Sets fields {@code from} (inclusive) to {@code to} (exclusive) of the row being written to null in
-     * one step: the same bytes as {@link UnsafeRowWriter#setNullAt} for each (the null bits set, each
-     * field's 8 bytes zeroed), with one read and write of the null bits' word instead of one per field
-     * (rows of fewer than 64 fields, whose null bits are one word, as every nested row here).
-     *
-     * @param writer the writer of the row, after its {@code resetRowWriter}
-     * @param fields the row's number of fields, below 64
-     * @param from   the first field to null
-     * @param to     one past the last
-     */
-    static void setNullAt(UnsafeRowWriter writer, int fields, int from, int to) {
-        if (fields >= 64 || from < 0 || to > fields || from >= to) {
-            throw new IllegalArgumentException("fields " + from + " to " + to + " of " + fields);
-        }
-        byte[] buffer = writer.getBuffer();
-        long bits = writer.getFieldOffset(0) - org.apache.spark.sql.catalyst.expressions.UnsafeRow
-                .calculateBitSetWidthInBytes(fields);
-        long mask = ((1L << (to - from)) - 1) << from;
-        org.apache.spark.unsafe.Platform.putLong(buffer, bits, org.apache.spark.unsafe.Platform.getLong(buffer, bits)
-                | mask);
-        for (int field = from; field < to; field++) {
-            org.apache.spark.unsafe.Platform.putLong(buffer, writer.getFieldOffset(field), 0L);
-        }
-    }
-
     /** Writes the value into the row, or null for NaN (undefined doubles are null in the output tables). */
     static void orNull(UnsafeRowWriter writer, int field, double value) {
         if (Double.isNaN(value)) {

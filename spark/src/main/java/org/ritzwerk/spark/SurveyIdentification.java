@@ -464,8 +464,7 @@ public final class SurveyIdentification {
         /** The output row's writers (one spectrum, its peaks, missing lines, presence and plasma rows). */
         private final UnsafeRowWriter out = new UnsafeRowWriter(Schemas.IDENTIFIED_SPECTRA.size(), 4096);
         private final UnsafeArrayWriter peaksOut = new UnsafeArrayWriter(out, 8);
-        private static final int PEAK_FIELDS = Schemas.IDENTIFIED_PEAK.size();
-        private final UnsafeRowWriter peakOut = new UnsafeRowWriter(peaksOut, PEAK_FIELDS);
+        private final UnsafeRowWriter peakOut = new UnsafeRowWriter(peaksOut, Schemas.IDENTIFIED_PEAK.size());
         private final UnsafeArrayWriter missingOut = new UnsafeArrayWriter(out, 8);
         private final UnsafeArrayWriter presenceOut = new UnsafeArrayWriter(out, 8);
         private final UnsafeRowWriter presenceRowOut = new UnsafeRowWriter(presenceOut, Schemas.PRESENCE.size());
@@ -622,7 +621,9 @@ public final class SurveyIdentification {
             }
             int rival = result.rival(i);
             if (rival < 0) {
-                Catalyst.setNullAt(peakOut, PEAK_FIELDS, 9, 13);
+                for (int field = 9; field < 13; field++) {
+                    peakOut.setNullAt(field);
+                }
                 return;
             }
             SpectralArrays.convert(new double[] {result.rivalPosition(i)}, Unit.METRE, Medium.vacuum(), unit, medium,
@@ -686,7 +687,9 @@ public final class SurveyIdentification {
                 peakOut.write(2, status == Identification.MATCHED ? MATCHED
                         : status == Identification.AMBIGUOUS ? AMBIGUOUS : UNEXPLAINED);
                 if (j < 0) {
-                    Catalyst.setNullAt(peakOut, PEAK_FIELDS, 3, 8);
+                    for (int field = 3; field < 8; field++) {
+                        peakOut.setNullAt(field);
+                    }
                 } else {
                     double line = converted[k++];
                     Catalyst.string(peakOut, 3, notations[lines.speciesIndex(j)]);
@@ -698,7 +701,9 @@ public final class SurveyIdentification {
                 if (status == Identification.AMBIGUOUS) {
                     ambiguity(result, i, lines, notations);
                 } else {
-                    Catalyst.setNullAt(peakOut, PEAK_FIELDS, 8, 13); // why and the rival: only for an ambiguous peak
+                    for (int field = 8; field < 13; field++) { // why and the rival: only for an ambiguous peak
+                        peakOut.setNullAt(field);
+                    }
                 }
                 peaksOut.setOffsetAndSizeFromPreviousCursor(i, at);
             }
