@@ -155,10 +155,7 @@ public final class HyperfineStructure {
      */
     public static List<HyperfineComponent> components(int twoI, int twoJLower, HyperfineConstants lower,
             int twoJUpper, HyperfineConstants upper, double centroidHertz, double centroidUncertaintyHertz) {
-        if (centroidUncertaintyHertz < 0 || centroidUncertaintyHertz == Double.POSITIVE_INFINITY) {
-            throw new IllegalArgumentException("the centroid's uncertainty must be finite and not negative (Hz; NaN"
-                    + " for not estimated), got " + centroidUncertaintyHertz);
-        }
+        checkCentroidUncertainty(centroidUncertaintyHertz);
         Objects.requireNonNull(lower, "lower");
         Objects.requireNonNull(upper, "upper");
         checkSpins(twoI, twoJLower);
@@ -178,9 +175,9 @@ public final class HyperfineStructure {
                 if (share == 0) {
                     continue;
                 }
-                double u = Math.sqrt(centroidUncertaintyHertz * centroidUncertaintyHertz
-                        + square(shiftUncertaintyHertz(twoI, twoJLower, f.twoF(), lower))
-                        + square(shiftUncertaintyHertz(twoI, twoJUpper, g.twoF(), upper)));
+                double u = componentUncertainty(centroidUncertaintyHertz,
+                        shiftUncertaintyHertz(twoI, twoJLower, f.twoF(), lower),
+                        shiftUncertaintyHertz(twoI, twoJUpper, g.twoF(), upper));
                 out.add(new HyperfineComponent(f.twoF(), g.twoF(), centroidHertz + g.shiftHertz() - f.shiftHertz(),
                         share, u));
             }
@@ -196,8 +193,20 @@ public final class HyperfineStructure {
         }
     }
 
-    private static double square(double x) {
-        return x * x;
+    /**
+     * A component's own standard uncertainty: its centroid's and its two levels' (or states') in quadrature,
+     * taken as independent; NaN when any is (not stated). At zero field and in a field alike.
+     */
+    static double componentUncertainty(double centroid, double lower, double upper) {
+        return Math.sqrt(centroid * centroid + lower * lower + upper * upper);
+    }
+
+    /** Refuses a centroid uncertainty that is negative or infinite (NaN: not estimated). */
+    static void checkCentroidUncertainty(double hertz) {
+        if (hertz < 0 || hertz == Double.POSITIVE_INFINITY) {
+            throw new IllegalArgumentException("the centroid's uncertainty must be finite and not negative (Hz; NaN"
+                    + " for not estimated), got " + hertz);
+        }
     }
 
     static void checkSpins(int twoI, int twoJ) {

@@ -311,7 +311,7 @@ public final class ZeemanStructure {
             throw new IllegalArgumentException("no dipole line from 2J = " + twoJLower + " to 2J' = " + twoJUpper
                     + " at centroid " + centroidHertz + " Hz");
         }
-        checkCentroidUncertainty(centroidUncertaintyHertz);
+        HyperfineStructure.checkCentroidUncertainty(centroidUncertaintyHertz);
         List<ZeemanState> lo = eigenstates(twoI, twoJLower, lower, gJLower, gI, fieldTesla);
         List<ZeemanState> up = eigenstates(twoI, twoJUpper, upper, gJUpper, gI, fieldTesla);
         int nI = twoI + 1;
@@ -341,8 +341,8 @@ public final class ZeemanStructure {
                 }
                 double share = amp * amp / (twoI + 1);
                 if (share > SHARE_FLOOR) {
-                    double uf = Math.sqrt(centroidUncertaintyHertz * centroidUncertaintyHertz
-                            + square(l.energyUncertaintyHertz()) + square(u.energyUncertaintyHertz()));
+                    double uf = HyperfineStructure.componentUncertainty(centroidUncertaintyHertz,
+                            l.energyUncertaintyHertz(), u.energyUncertaintyHertz());
                     out.add(new ZeemanComponent(l.twoF(), l.twoMF(), u.twoF(), u.twoMF(), twoQ / 2,
                             centroidHertz + u.energyHertz() - l.energyHertz(), share, uf, l.dominant(),
                             u.dominant()));
@@ -416,7 +416,7 @@ public final class ZeemanStructure {
     public static List<ZeemanComponent> termComponents(int twoI, HyperfineConstants lower, int lUpper,
             HyperfineConstants upperLow, HyperfineConstants upperHigh, double fineStructureHertz, int twoJUpper,
             double gI, double centroidHertz, double centroidUncertaintyHertz, double fieldTesla) {
-        checkCentroidUncertainty(centroidUncertaintyHertz);
+        HyperfineStructure.checkCentroidUncertainty(centroidUncertaintyHertz);
         Objects.requireNonNull(lower, "lower");
         Objects.requireNonNull(upperLow, "upperLow");
         Objects.requireNonNull(upperHigh, "upperHigh");
@@ -458,8 +458,8 @@ public final class ZeemanStructure {
                 double strength = amp * amp;
                 total += strength;
                 if (term.twoJ(u) == twoJUpper) {
-                    double uf = Math.sqrt(centroidUncertaintyHertz * centroidUncertaintyHertz
-                            + square(l.energyUncertaintyHertz()) + square(term.energyUncertaintyHertz(u)));
+                    double uf = HyperfineStructure.componentUncertainty(centroidUncertaintyHertz,
+                            l.energyUncertaintyHertz(), term.energyUncertaintyHertz(u));
                     found.add(new double[] {l.twoF(), l.twoMF(), term.twoF(u), term.twoMF(u), twoQ / 2.0,
                         lowCentroid + term.energyHertz(u) - l.energyHertz(), strength, uf});
                     labels.add(new UncoupledLabel[] {l.dominant(), term.dominant(u)});
@@ -749,17 +749,6 @@ public final class ZeemanStructure {
 
     private static boolean hasQuadrupole(int twoI, int twoJ) {
         return twoI >= 2 && twoJ >= 2;
-    }
-
-    private static double square(double x) {
-        return x * x;
-    }
-
-    private static void checkCentroidUncertainty(double u) {
-        if (u < 0 || u == Double.POSITIVE_INFINITY) {
-            throw new IllegalArgumentException("the centroid's uncertainty must be finite and not negative (Hz; NaN"
-                    + " for not estimated), got " + u);
-        }
     }
 
     /** The Hamiltonian matrix in the |m_J m_I> basis, Hz. */
