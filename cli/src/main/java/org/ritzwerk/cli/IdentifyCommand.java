@@ -514,6 +514,10 @@ final class IdentifyCommand implements Callable<Integer> {
         double[] linePositions = new double[1];
         double[] positions = read.positions();
         int[] fileLines = read.lines();
+        // Each reason among the ambiguous peaks, for the summary; a peak with several counts under each.
+        int rivals = 0;
+        int notShown = 0;
+        int stray = 0;
         for (int i = 0; i < positions.length; i++) {
             int j = result.line(i);
             String status = result.status(i) == Identification.MATCHED ? "matched"
@@ -524,7 +528,10 @@ final class IdentifyCommand implements Callable<Integer> {
                         medium, linePositions);
                 linePosition = linePositions[0];
             }
-            Set<Identification.Ambiguity> why = result.ambiguity(i);
+            Set<Identification.Ambiguity> why = result.ambiguity(i); // empty exactly when not ambiguous
+            rivals += why.contains(Identification.Ambiguity.CLOSE_RIVAL) ? 1 : 0;
+            notShown += why.contains(Identification.Ambiguity.SPECIES_NOT_SHOWN) ? 1 : 0;
+            stray += why.contains(Identification.Ambiguity.MAY_BE_STRAY) ? 1 : 0;
             int rival = result.rival(i);
             Double rivalPosition = null;
             if (rival >= 0) {
@@ -552,18 +559,6 @@ final class IdentifyCommand implements Callable<Integer> {
         PrintWriter summary = format == Table.Format.text ? out : spec.commandLine().getErr();
         if (format == Table.Format.text) {
             summary.println();
-        }
-        // Each reason among the ambiguous peaks; a peak with several counts under each.
-        int rivals = 0;
-        int notShown = 0;
-        int stray = 0;
-        for (int i = 0; i < positions.length; i++) {
-            if (result.status(i) == Identification.AMBIGUOUS) {
-                Set<Identification.Ambiguity> reasons = result.ambiguity(i);
-                rivals += reasons.contains(Identification.Ambiguity.CLOSE_RIVAL) ? 1 : 0;
-                notShown += reasons.contains(Identification.Ambiguity.SPECIES_NOT_SHOWN) ? 1 : 0;
-                stray += reasons.contains(Identification.Ambiguity.MAY_BE_STRAY) ? 1 : 0;
-            }
         }
         List<String> why = new ArrayList<>(3);
         if (rivals > 0) {
