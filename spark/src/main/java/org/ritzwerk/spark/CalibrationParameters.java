@@ -118,7 +118,7 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
             throw new IllegalArgumentException("priorFromNm and priorToNm must both be given or both be NaN");
         }
         calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
-                requiredPrecision, gain, readNoise).withUncertaintyCeiling(uncertaintyCeiling);
+                requiredPrecision, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
         prior(priorFromNm, priorToNm, minDispersion, maxDispersion);
         if (!Double.isNaN(resolvingPower) && !(resolvingPower >= 1 && resolvingPower <= 1e7)) {
             throw new IllegalArgumentException("resolvingPower must be 1 to 1e7, or NaN for the default, got "
@@ -267,15 +267,16 @@ public record CalibrationParameters(List<String> lamps, List<String> lineSets, L
     /** @return the calibrator these settings describe (as the command configures it) */
     Calibrator calibrator() {
         return calibrator(threshold, tolerancePixels, minMatched, clip, degree, maxDegree, saturation, secondOrder,
-                requiredPrecision, gain, readNoise).withUncheckedEndsAccepted(uncheckedEnds)
-                .withUncertaintyCeiling(uncertaintyCeiling);
+                requiredPrecision, uncheckedEnds, gain, readNoise, uncertaintyCeiling);
     }
 
+    /** The calibrator of these settings; built in the constructor too, where its checks refuse a bad setting. */
     private static Calibrator calibrator(double threshold, double tolerancePixels, double minMatched, double clip,
-            int degree, int maxDegree, double saturation, boolean secondOrder, double requiredPrecision, double gain,
-            double readNoise) {
+            int degree, int maxDegree, double saturation, boolean secondOrder, double requiredPrecision,
+            boolean uncheckedEnds, double gain, double readNoise, double uncertaintyCeiling) {
         Calibrator calibrator = Calibrator.defaults().withThreshold(threshold).withTolerance(tolerancePixels)
-                .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(secondOrder);
+                .withMinMatchedFraction(minMatched).withClipping(clip).withSecondOrder(secondOrder)
+                .withUncheckedEndsAccepted(uncheckedEnds).withUncertaintyCeiling(uncertaintyCeiling);
         calibrator = degree == 0 ? calibrator.withAutomaticDegree(maxDegree) : calibrator.withDegree(degree);
         calibrator = Double.isNaN(requiredPrecision) ? calibrator : calibrator.withRequiredPrecision(requiredPrecision);
         calibrator = Double.isNaN(gain) ? calibrator : calibrator.withGain(gain);
