@@ -12,9 +12,12 @@ import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.SparkSession;
 import org.apache.spark.sql.catalyst.InternalRow;
+import org.apache.spark.sql.catalyst.expressions.Attribute;
+import org.apache.spark.sql.catalyst.expressions.ExpressionSet;
 import org.apache.spark.sql.catalyst.expressions.GenericInternalRow;
 import org.apache.spark.sql.catalyst.expressions.UnsafeArrayData;
 import org.apache.spark.sql.catalyst.expressions.codegen.UnsafeRowWriter;
+import org.apache.spark.sql.catalyst.plans.logical.LogicalPlan;
 import org.apache.spark.sql.catalyst.util.ArrayData;
 import org.apache.spark.sql.catalyst.util.GenericArrayData;
 import org.apache.spark.sql.types.StructType;
@@ -116,6 +119,27 @@ final class Catalyst {
     static boolean exchanges(Dataset<Row> table) {
         return classic(table).queryExecution().sparkPlan()
                 .find(FunctionConverters.asScalaFromFunction(plan -> plan instanceof Exchange)).isDefined();
+    }
+
+    /**
+     * @param table a table of a classic session
+     * @return whether Spark's optimizer knows the table's first column to be unique: its optimized
+     *         plan has a set of distinct keys made of that column alone (an aggregate grouped by it, as
+     *         {@code groupBy("id")} or {@link SurveyIdentification#peakLists} make; a
+     *         {@code dropDuplicates("id")}), or none at all (at most one row). Found on the driver
+     *         without running anything; false wherever Spark cannot tell (a source or a cache read as
+     *         it is, a union, a join, or {@code spark.sql.optimizer.propagateDistinctKeys.enabled} off)
+     */
+    static boolean uniqueFirstColumn(Dataset<Row> table) {
+        LogicalPlan plan = classic(table).queryExecution().optimizedPlan();
+        Attribute first = plan.output().head();
+        scala.collection.Iterator<ExpressionSet> keys = plan.distinctKeys().iterator();
+        while (keys.hasNext()) {
+            if (keys.next().forall(FunctionConverters.asScalaFromFunction(key -> key.semanticEquals(first)))) {
+                return true;
+            }
+        }
+        return false;
     }
 
     private static org.apache.spark.sql.classic.Dataset<Row> classic(Dataset<Row> table) {

@@ -420,7 +420,8 @@ final class Setups {
      */
     private static RDD<InternalRow> tasks(Dataset<Row> selected, boolean checkIds, PartitionTask<?, ?> task) {
         RDD<InternalRow> rows = Catalyst.rows(selected);
-        if (checkIds) {
+        // A table whose plan makes its ids unique (grouped by them) cannot repeat one: no count.
+        if (checkIds && !Catalyst.uniqueFirstColumn(selected)) {
             return RepeatedIds.checked(selected, rows, task::call);
         }
         return rows.toJavaRDD().mapPartitions(in -> task.call(in, java.util.Map.of())).rdd();

@@ -80,6 +80,9 @@ public final class SurveySynthesis {
      *           whose ids are unique by construction (a primary key) is processed without the
      *           extra read of its ids and the shuffle that counts them; a repeated id then gives
      *           two output rows with that id. The numbers of every row are the same either way.
+     *           A table whose plan makes its ids unique (grouped by them, as
+     *           {@link SurveyIdentification#peakLists} makes; {@code dropDuplicates("id")}) is
+     *           never counted: Spark's optimizer knows its ids are distinct keys.
      * @return the operation with the check on or off
      */
     public SurveySynthesis withIdCheck(boolean on) {

@@ -424,6 +424,59 @@ class RowFormTest {
         assertTrue(message.contains("row 'scene-0', field 'id': the scene table has 2 rows with this id"), message);
     }
 
+    /**
+     * A table whose plan makes its ids unique (grouped by them, as {@code peakLists} groups peak rows)
+     * is not counted: the check adds no stage to its action (before, 19 stages against 13: the ids'
+     * shuffle and the shuffle into one partition in each of the action's jobs), and the numbers are
+     * the same. A table Spark cannot tell to be
+     * unique (a union, a grouping by more than the id, a table read as it is) is still counted, and a
+     * repeat across a union of two grouped tables still fails the job.
+     */
+    @Test
+    void aTableGroupedByItsIdsIsNotCounted() {
+        SparkSession spark = LocalSpark.session();
+        List<Row> peakRows = new ArrayList<>();
+        for (Fixtures.PeakListData list : Fixtures.peakLists(SPECIES, 4, 6, 1, 35L)) {
+            for (int k = 0; k < list.nm().length; k++) {
+                peakRows.add(RowFactory.create(list.id(), k, list.nm()[k], list.sigma()[k], list.photons()[k],
+                        list.width()[k]));
+            }
+        }
+        Dataset<Row> rows = spark.createDataFrame(peakRows, Schemas.PEAK_ROWS).repartition(2);
+        Dataset<Row> grouped = SurveyIdentification.peakLists(rows);
+        assertTrue(Catalyst.uniqueFirstColumn(grouped));
+        assertTrue(Catalyst.uniqueFirstColumn(grouped.select("id", "positions")));
+        assertTrue(Catalyst.uniqueFirstColumn(rows.dropDuplicates("id")));
+        assertTrue(!Catalyst.uniqueFirstColumn(rows), "peak rows repeat their spectrum's id");
+        assertTrue(!Catalyst.uniqueFirstColumn(grouped.union(grouped)));
+        assertTrue(!Catalyst.uniqueFirstColumn(rows.groupBy("id", "peak").count()));
+        assertTrue(!Catalyst.uniqueFirstColumn(rows.groupBy("peak", "id").count().select("id", "peak")));
+        assertTrue(!Catalyst.uniqueFirstColumn(Fixtures.peakListTable(spark, Fixtures.peakLists(SPECIES, 2, 6, 1,
+                36L), 1)));
+        List<List<Row>> results = new ArrayList<>();
+        List<Integer> stages = new ArrayList<>();
+        for (boolean check : new boolean[] {true, false}) {
+            String group = "ritzwerk-grouped-" + check;
+            spark.sparkContext().setJobGroup(group, "one action", false);
+            try {
+                results.add(job().withIdCheck(check).identify(grouped).spectra().orderBy("id").collectAsList());
+                int count = 0;
+                for (int id : spark.sparkContext().statusTracker().getJobIdsForGroup(group)) {
+                    count += spark.sparkContext().statusTracker().getJobInfo(id).get().stageIds().length;
+                }
+                stages.add(count);
+            } finally {
+                spark.sparkContext().clearJobGroup();
+            }
+        }
+        assertEquals(stages.get(1), stages.get(0), "stages with the check and without it");
+        assertEquals(results.get(1), results.get(0));
+        assertEquals(4, results.get(0).size());
+        String message = SurveyIdentificationTest.failure(() -> job().identify(grouped.union(grouped)).spectra()
+                .count());
+        assertTrue(message.contains("the peak-list table has 2 rows with this id"), message);
+    }
+
     /** The job counts with the id check on, for the comparison with it off. */
     private List<Integer> checkedJobs;
 
