@@ -84,4 +84,30 @@ class LowDLevelHyperfineCommandTest {
         }
         assertEquals(33.028, (second.get("234") - second.get("233")) / 1e6, 1e-3, second.toString());
     }
+
+    /**
+     * Cs-133 6d5/2: A = -4.66(4) MHz, B = 0.9(6) MHz (A. Kortyna, N. Masluk and T. Bragdon, APS DAMOP 2005 meeting
+     * abstract D6.8, read in the abstract); I = 7/2, F = 1 to 6, inverted. And the 917 nm ladder through it.
+     */
+    @Test
+    void caesiumSixD52PrintsItsSixFLevelsAndLadder() {
+        CliTest.Run run = CliTest.run("levels", "--species", "Cs-133 I", "--hyperfine", "--state", "6d5/2",
+                "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        Map<String, JsonNode> f = byF(run.out());
+        assertEquals(6, f.size(), run.out());
+        for (int upper = 1; upper <= 6; upper++) {
+            JsonNode row = f.get(String.valueOf(upper));
+            assertEquals(casimir(-4.66, 0.9, 3.5, 2.5, upper), row.get("shift_mhz").asDouble(), 1e-5, run.out());
+            assertTrue(row.get("constants").asString().contains("DAMOP 2005"), row.toString());
+        }
+        CliTest.Run d32 = CliTest.run("levels", "--species", "Cs-133 I", "--hyperfine", "--state", "6d3/2",
+                "--format", "json");
+        assertEquals(0, d32.code(), d32.err());
+        assertEquals(4, byF(d32.out()).size(), d32.out());
+        CliTest.Run ladder = CliTest.run("lines", "--species", "Cs-133 I", "--ladder", "6s1/2,6p3/2,6d5/2",
+                "--hyperfine", "--format", "json");
+        assertEquals(0, ladder.code(), ladder.err());
+        assertEquals(18, rows(ladder.out()).size(), ladder.out());
+    }
 }

@@ -21,6 +21,7 @@ class LowDLevelHyperfineTest {
 
     private static final DataContext CONTEXT = DataContext.builtIn();
     private static final Species RB85 = Species.parse("Rb-85 I");
+    private static final Species CS = Species.parse("Cs-133 I");
 
     /**
      * Hyperfine energy of level F (MHz): A K/2 + B (3K(K+1)/2 - 2I(I+1)J(J+1)) / (4I(2I-1)J(2J-1)),
@@ -95,6 +96,53 @@ class LowDLevelHyperfineTest {
         double f3 = second(paths, 4, 4, 6);
         double f2 = second(paths, 4, 4, 4);
         assertEquals(casimir(7.419, 4.19, 2.5, 1.5, 3) - casimir(7.419, 4.19, 2.5, 1.5, 2), (f3 - f2) / 1e6, 1e-6);
+    }
+
+    /**
+     * Cs-133 6d (I = 7/2): 6d3/2 A = 16.34(5) MHz, B = -0.1(3) MHz and 6d5/2 A = -4.66(4) MHz, B = 0.9(6) MHz (A.
+     * Kortyna, N. Masluk and T. Bragdon, APS DAMOP 2005 meeting abstract D6.8, read in the abstract). 6d5/2 is
+     * inverted (A &lt; 0): F = 1 highest; its F = 6 - 5 interval is 6A + 18B/35 by the Casimir formula (hand),
+     * -27.4971 MHz (make_d_lines.py's splittings column). Before, both levels had no constants.
+     */
+    @Test
+    void caesiumSixDSplitsWithThePublishedConstants() {
+        State d32 = State.of(6, 2, 3);
+        State d52 = State.of(6, 2, 5);
+        HyperfineConstants c32 = CONTEXT.hyperfineConstants(CS, d32).orElseThrow();
+        HyperfineConstants c52 = CONTEXT.hyperfineConstants(CS, d52).orElseThrow();
+        assertEquals(16.34e6, c32.aHertz(), 1e-3);
+        assertEquals(-0.1e6, c32.bHertz(), 1e-3);
+        assertEquals(-4.66e6, c52.aHertz(), 1e-3);
+        assertEquals(0.9e6, c52.bHertz(), 1e-3);
+        assertEquals(0.04e6, c52.aUncertaintyHertz(), 1e-3);
+        assertEquals(0.6e6, c52.bUncertaintyHertz(), 1e-3);
+        assertTrue(c52.source().contains("DAMOP 2005"), c52.source());
+        Map<Integer, Double> s32 = shiftsMhz(CS, d32);
+        assertEquals(4, s32.size(), s32.toString());
+        for (int f = 2; f <= 5; f++) {
+            assertEquals(casimir(16.34, -0.1, 3.5, 1.5, f), s32.get(2 * f), 1e-6, "6d3/2 F = " + f);
+        }
+        Map<Integer, Double> s52 = shiftsMhz(CS, d52);
+        assertEquals(6, s52.size(), s52.toString());
+        for (int f = 1; f <= 6; f++) {
+            assertEquals(casimir(-4.66, 0.9, 3.5, 2.5, f), s52.get(2 * f), 1e-6, "6d5/2 F = " + f);
+        }
+        assertEquals(-27.4971, s52.get(12) - s52.get(10), 1e-4);
+        assertTrue(s52.get(2) > s52.get(12), s52.toString());
+    }
+
+    /**
+     * The 917 nm ladder 6s1/2 -> 6p3/2 (852 nm) -> 6d5/2: F = 3, 4; F' = 2 to 5; F'' = 1 to 6; Delta F = 0, +-1
+     * per step: 18 paths. The second steps from F' = 5 to F'' = 6 and 5 differ by the 6d5/2 F = 6 - 5 interval of
+     * the published constants.
+     */
+    @Test
+    void theCaesium917NanometreLadderResolvesIntoFPaths() {
+        List<AlkaliHyperfine.LadderComponent> paths = AlkaliHyperfine.ladderComponents(CONTEXT, CS,
+                State.of(6, 0, 1), State.of(6, 1, 3), State.of(6, 2, 5));
+        assertEquals(18, paths.size(), paths.toString());
+        assertEquals(casimir(-4.66, 0.9, 3.5, 2.5, 6) - casimir(-4.66, 0.9, 3.5, 2.5, 5),
+                (second(paths, 8, 10, 12) - second(paths, 8, 10, 10)) / 1e6, 1e-6);
     }
 
     private static double second(List<AlkaliHyperfine.LadderComponent> paths, int twoF, int twoF1, int twoF2) {

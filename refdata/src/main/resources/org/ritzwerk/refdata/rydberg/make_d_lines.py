@@ -185,6 +185,10 @@ HYPERFINE = [
     ("Rb-85", "4d 2D3/2", "7.419", "0.035", "4.19", "0.19", "published",
      DUSPAYEV_2023 + " (read in the abstract: A = 7.419(35) MHz and B = 4.19(19) MHz from the hyperfine intervals "
      "of the two-photon 5S1/2 - 4D3/2 transition)"),
+    ("Cs-133", "6d 2D3/2", "16.34", "0.05", "-0.1", "0.3", "published",
+     KORTYNA_2005 + " (read in the abstract: 6d 2D3/2 A = 16.34 +- 0.05 MHz and B = -0.1 +- 0.3 MHz)"),
+    ("Cs-133", "6d 2D5/2", "-4.66", "0.04", "0.9", "0.6", "published",
+     KORTYNA_2005 + " (read in the abstract: 6d 2D5/2 A = -4.66 +- 0.04 MHz and B = 0.9 +- 0.6 MHz)"),
 ]
 
 # check S of the low d levels: a second measurement of the same level, as read (value, uncertainty, source).
