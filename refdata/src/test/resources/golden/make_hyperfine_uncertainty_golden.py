@@ -30,9 +30,12 @@ Independent of the project's code:
     quadrature as a relative uncertainty r = min(d |n - n_m|, cap) of A and of B: X = A n*^3 at two measured
     levels of a series, d = |ln(X_b / X_a)| / |n_b - n_a|, n_m the nearest measured n (for a published scaled
     constant the nearest end of the n range it was fitted over, 41-55 for Cs nP); cap, and d of a series with
-    one measured level (Rb nD5/2), the Cs 6s - 7s figure |ln(X_6s / X_7s)| (the largest of the project's
-    pairs, which RydbergHyperfineScalingLawTest checks over every series); Rb nS: 5s and 7s; Cs nP3/2: 6p3/2
-    and 7p3/2; measured levels' n* = sqrt(R_M / (limit - E)), E = 0 for a ground level.
+    one measured level (Rb nD5/2), the Cs 6d5/2 - 7d5/2 figure |ln(X_6d / X_7d)| (the largest of the project's
+    pairs since the 6d constants were added, which RydbergHyperfineScalingLawTest checks over every series;
+    before, Cs 6s - 7s, also printed); Rb nS: 5s and 7s; Cs nP3/2: 6p3/2 and 7p3/2; Cs nD3/2: 6d3/2 and 7d3/2;
+    measured levels' n* = sqrt(R_M / (limit - E)), E = 0 for a ground level, or, for a level the level list
+    lacks (Cs 6d3/2, 7d3/2, 7d5/2), n - delta(n) of the series' modified Rydberg-Ritz formula with every
+    coefficient of quantum-defects-cs-133.csv, as the engine takes it there.
 
 Numbers, as the data files hold them (their sources named there; most from memory):
   Rb-87 (I = 3/2): 5s A = 3417.34130545215(5e-11) MHz (Bize et al. 1999); 5p1/2 A = 408.328(15) MHz (Barwood
@@ -45,7 +48,11 @@ Numbers, as the data files hold them (their sources named there; most from memor
   Cs-133 (I = 7/2): 6s A = 2298.1579425 MHz exactly (the SI second); 6p3/2 A = 50.28827(23) MHz, B =
     -0.4934(17) MHz (Gerginov et al. 2003); D2 351 725 718.4744(51) MHz (Gerginov et al. 2004), the 6p3/2
     energy; 7s A = 545.818 MHz (Yang et al. 2016) at 18535.5286 cm-1, 7p3/2 A = 16.605 MHz (Arimondo et al.
-    1977) at 21946.397 cm-1 (both energies NIST ASD as typed in, levels-cs-133.csv); nP3/2 scaled
+    1977) at 21946.397 cm-1 (both energies NIST ASD as typed in, levels-cs-133.csv); 6d3/2 A = 16.34 MHz and
+    6d5/2 A = -4.66 MHz (Kortyna et al., DAMOP 2005 abstract, read), 6d5/2 at 22631.6863 cm-1 (levels-cs-133.csv);
+    7d3/2 A = 7.3509 MHz (arXiv:2210.01481), 7d5/2 A = -1.70867 MHz (Rahaman and Dutta 2023), both read in the
+    abstracts; nD3/2 d0..d8 = 2.4754562, 0.00932, -0.43498, -0.76358, -18.0061 (Lorenzen and Niemax 1984) and
+    nD5/2 d0..d6 = 2.4663144, 0.01381, -0.392, -1.9 (Deiglmayr et al. 2016), as quantum-defects-cs-133.csv; nP3/2 scaled
     A = 0.718(27) GHz, B = -0.084(102) GHz (Song et al. 2024, read in the abstract); limit 31 406.467 732 5(14)
     cm-1 and nP3/2 d0 = 3.5590676(2), d2 = 0.37469(14) (Deiglmayr et al. 2016);
   masses AME2020 (Rb-87 86.909180529 u, Cs-133 132.905451958 u), CODATA 2018 R_inf, m_e and c.
@@ -143,9 +150,20 @@ def x_measured(a_mhz, limit, rm, e):
     return a_mhz * n_star_measured(limit, rm, e) ** 3
 
 
-# the n*^-3 law's error: the cap (and the drift per n of a one-level series) from Cs 6s - 7s
-CS_LAW_CAP = abs(mpmath.log(x_measured(M("2298.1579425"), CS_LIMIT, CS_RM, M(0))
-                            / x_measured(M("545.818"), CS_LIMIT, CS_RM, M("18535.5286"))))
+def n_star_ritz(d, n):
+    """n - delta(n), delta = d0 + d2/(n - d0)^2 + d4/(n - d0)^4 + ... (every coefficient given)."""
+    x = n - d[0]
+    return n - (d[0] + sum(c / x ** (2 * k + 2) for k, c in enumerate(d[1:])))
+
+
+CS_D32 = [M("2.4754562"), M("0.00932"), M("-0.43498"), M("-0.76358"), M("-18.0061")]
+CS_D52 = [M("2.4663144"), M("0.01381"), M("-0.392"), M("-1.9")]
+# the n*^-3 law's error: the cap (and the drift per n of a one-level series) from Cs 6d5/2 - 7d5/2, one n apart
+CS_LAW_CAP = abs(mpmath.log(x_measured(M("-4.66"), CS_LIMIT, CS_RM, M("22631.6863"))
+                            / (M("-1.70867") * n_star_ritz(CS_D52, 7) ** 3)))
+CS_S_CHANGE = abs(mpmath.log(x_measured(M("2298.1579425"), CS_LIMIT, CS_RM, M(0))
+                             / x_measured(M("545.818"), CS_LIMIT, CS_RM, M("18535.5286"))))
+CS_D32_DRIFT = abs(mpmath.log(M("16.34") * n_star_ritz(CS_D32, 6) ** 3 / (M("7.3509") * n_star_ritz(CS_D32, 7) ** 3)))
 RB_S_DRIFT = abs(mpmath.log(x_measured(M("3417.34130545215"), RB_LIMIT, RB_RM, M(0))
                             / x_measured(M("319.759"), RB_LIMIT, RB_RM, M("26311.436")))) / 2
 
@@ -177,9 +195,9 @@ a_40p = M("0.718") * 10 ** 9 * scale_40p
 b_40p = M("-0.084") * 10 ** 9 * scale_40p
 CS["40p3/2"] = (3, a_40p, with_law(a_40p, M("0.027") * 10 ** 9 * scale_40p, r_40p),
                 b_40p, with_law(b_40p, M("0.102") * 10 ** 9 * scale_40p, r_40p))
-print("law: cap %s, Rb nS drift %s, Cs nP3/2 drift %s"
-      % (mpmath.nstr(CS_LAW_CAP, 12), mpmath.nstr(RB_S_DRIFT, 12),
-         mpmath.nstr(CS_P32_DRIFT, 12)))
+print("law: cap %s, Rb nS drift %s, Cs nP3/2 drift %s, Cs nD3/2 drift %s, Cs 6s - 7s %s"
+      % (mpmath.nstr(CS_LAW_CAP, 13), mpmath.nstr(RB_S_DRIFT, 12),
+         mpmath.nstr(CS_P32_DRIFT, 12), mpmath.nstr(CS_D32_DRIFT, 13), mpmath.nstr(CS_S_CHANGE, 13)))
 
 HEADER = ["# generated by make_hyperfine_uncertainty_golden.py with sympy %s and mpmath %s at 50 digits"
           % (sympy.__version__, mpmath.__version__),

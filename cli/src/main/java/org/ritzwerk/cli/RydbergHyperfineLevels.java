@@ -14,10 +14,11 @@ import org.ritzwerk.refdata.DataContext;
 
 /**
  * {@code levels --hyperfine --state STATE}: the F levels of one alkali level (a Rydberg level with
- * n*^-3-scaled constants, or a ground, first p or Cs 7p level with measured ones), each with its energy and
- * its shift from the hyperfine-free level, and A and B with their standard uncertainties (for scaled constants
- * including the n*^-3 law's own error; {@code -}, null in JSON, where none is stated). Formatting only: the
- * constants and F levels come from {@link DataContext#hyperfineConstants} and {@link DataContext#hyperfineLevels}.
+ * n*^-3-scaled constants, or a ground, first p, Cs 7p, Rb-85 4d3/2 or Cs 6d level with measured ones), each
+ * with its energy and its shift from the hyperfine-free level, and A and B with their standard uncertainties
+ * (for scaled constants including the n*^-3 law's own error; {@code -}, null in JSON, where none is stated).
+ * Formatting only: the constants and F levels come from {@link DataContext#hyperfineConstants} and
+ * {@link DataContext#hyperfineLevels}.
  */
 final class RydbergHyperfineLevels {
 
@@ -59,7 +60,8 @@ final class RydbergHyperfineLevels {
             HyperfineConstants constants = context.hyperfineConstants(atom.species(), state).orElseThrow(
                     () -> new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
                             + atom.species().notation() + " (constants are built in for the ground and first p "
-                            + "levels, Cs 7p and, scaled as n*^-3, for the Rydberg series of rydberg-hyperfine.csv)"));
+                            + "levels, Cs 7p, Rb-85 4d3/2, Cs 6d and, scaled as n*^-3, for the Rydberg series of "
+                            + "rydberg-hyperfine.csv)"));
             List<AlkaliHyperfine.FLevel> levels = context.hyperfineLevels(atom.species(), state);
             for (AlkaliHyperfine.FLevel f : levels) {
                 table.add(atom.species().notation(), state.notation(), half(f.twoF()), f.twoF() + 1, f.energyPerCm(),

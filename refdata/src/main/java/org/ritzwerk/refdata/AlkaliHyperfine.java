@@ -46,7 +46,8 @@ import org.ritzwerk.refdata.internal.RydbergData;
  * element's levels ({@link #withResonanceLevels}), so each isotope's first p levels are its own.
  *
  * <p><b>Hyperfine constants.</b> A and B (MHz) of the ground and first p levels, and of the levels above
- * them that have a measurement here (Cs-133 7p1/2 and 7p3/2); with the nuclear
+ * them that have a measurement here (Cs-133 7p1/2 and 7p3/2; the low d levels Rb-85 4d3/2, Cs-133 6d3/2 and
+ * 6d5/2); with the nuclear
  * spin from the nuclear data they give the F levels, the F -> F' components of the D lines
  * ({@link #components}) and, with the g factors, their Zeeman components ({@link #zeemanComponents}).
  *

@@ -31,27 +31,35 @@ class RydbergHyperfineScalingLawTest {
     }
 
     /**
-     * Cs 6s: A = 2298.1579425 MHz (the SI second), n* = sqrt(R_Cs / 31406.4677325 cm-1) = 1.869247, A n*^3 =
-     * 15010.0 MHz; Cs 7s: A = 545.818 MHz (G. Yang et al., arXiv:1601.02749, read in the abstract) at 18535.5286
-     * cm-1, n* = 2.919921, A n*^3 = 13588.2 MHz; ln(15010.0 / 13588.2) = 0.09951 over one n. The golden script
-     * gives 0.0995148083737 (mpmath, 50 digits). Every other series' pair drifts less per n (Rb 5s - 7s 0.0456,
-     * Na 3s - 4s 0.0229, K 4s - 7s 0.0208, Cs 6p1/2 - 7p1/2 0.0176, Li 2s - 3s 0.0115, Cs 6p3/2 - 7p3/2 0.0097,
-     * Rb-87 5p - 6p 0.0013 and 0.0005), and changes less in all (Rb 5s - 7s 0.0912).
+     * The largest drift: Cs 6d5/2, A = -4.66(4) MHz (A. Kortyna et al., APS DAMOP 2005 abstract D6.8, read) at
+     * 22631.6863 cm-1, n* = 3.5364, A n*^3 = -206.09 MHz; Cs 7d5/2, A = -1.70867 MHz (B. Rahaman and S. Dutta 2023,
+     * read in the abstract), n* = 7 - delta(7) of the nD5/2 formula = 4.5342, A n*^3 = -159.28 MHz;
+     * ln(206.09 / 159.28) = 0.2577 over one n. The golden script gives 0.2576856110141 (mpmath, 50 digits). Before
+     * the 6d constants the largest was Cs 6s - 7s, 0.0995148083737 (A = 2298.1579425 MHz, the SI second, against
+     * 545.818 MHz, G. Yang et al., arXiv:1601.02749, read in the abstract; the golden script prints it too), which
+     * is now Cs nS's own drift. Every other series' pair drifts less per n (Rb 5s - 7s 0.0456, Cs 6d3/2 - 7d3/2
+     * 0.0517, Na 3s - 4s 0.0229, K 4s - 7s 0.0208, Cs 6p1/2 - 7p1/2 0.0176, Li 2s - 3s 0.0115, Cs 6p3/2 - 7p3/2
+     * 0.0097, Rb-87 5p - 6p 0.0013 and 0.0005), and changes less in all (Rb 5s - 7s 0.0912).
      */
     @Test
     void theMeasuredPairsInTheDataGiveTheStatedDriftPerN() {
         RydbergHyperfine.ScalingLawError law = DATA.scalingLawError(CONTEXT);
-        assertEquals(0.0995148083737, law.driftPerN(), 1e-9);
-        assertEquals(0.0995148083737, law.cap(), 1e-9);
-        assertEquals("Cs-133 I 6s 2S1/2 - 7s 2S1/2", law.pair());
+        assertEquals(0.2576856110141, law.driftPerN(), 1e-9);
+        assertEquals(0.2576856110141, law.cap(), 1e-9);
+        assertEquals("Cs-133 I 6d 2D5/2 - 7d 2D5/2", law.pair());
+        assertEquals(0.0995148083737, DATA.driftPerN(CONTEXT, row(CS, 0, 1)).orElseThrow(), 1e-9);
         // Rb-87 5s - 7s over two n and Cs 6p3/2 - 7p3/2 over one (golden script: 0.0456225758483, 0.00972858701347)
         assertEquals(0.0456225758483, DATA.driftPerN(CONTEXT, row(RB87, 0, 1)).orElseThrow(), 1e-9);
         assertEquals(0.00972858701347, DATA.driftPerN(CONTEXT, row(CS, 1, 3)).orElseThrow(), 1e-9);
+        // Cs 6d3/2 (16.34 MHz, Kortyna et al. 2005) - 7d3/2 (7.3509 MHz, arXiv:2210.01481), both n* from the nD3/2
+        // formula (the level list has neither): golden script 0.05172485568539
+        assertEquals(0.05172485568539, DATA.driftPerN(CONTEXT, row(CS, 2, 3)).orElseThrow(), 1e-9);
         // Li-7 2s: A = 401.7520433 MHz at n* = 1.588473, A n*^3 = 1610.26 MHz; 3s: A = 93.095 MHz at n* = 2.596087,
         // A n*^3 = 1628.86 MHz; ln(1628.86 / 1610.26) = 0.01148 per n (hand, with the project's n*)
         assertEquals(0.011483, DATA.driftPerN(CONTEXT, row(LI7, 0, 1)).orElseThrow(), 2e-6);
         // a series with one measured level has no drift of its own: it takes the largest
-        assertTrue(DATA.driftPerN(CONTEXT, row(CS, 2, 3)).isEmpty());
+        assertTrue(DATA.driftPerN(CONTEXT, row(RB87, 2, 5)).isEmpty());
+        assertEquals(0.2576856110141, law(RB87, State.of(8, 2, 5)), 1e-9);
         for (RydbergHyperfine.Series s : DATA.series()) {
             DATA.driftPerN(CONTEXT, s).ifPresent(d -> assertTrue(d <= law.driftPerN(), s.toString()));
         }
@@ -64,7 +72,7 @@ class RydbergHyperfineScalingLawTest {
         double previous = 0;
         for (int n = 4; n <= 40; n++) {
             double r = law(LI7, State.of(n, 0, 1));
-            assertEquals(Math.min(d * (n - 3), 0.0995148083737), r, 1e-9, "Li-7 " + n + "s");
+            assertEquals(Math.min(d * (n - 3), 0.2576856110141), r, 1e-9, "Li-7 " + n + "s");
             assertTrue(r >= previous, "Li-7 " + n + "s");
             previous = r;
         }
@@ -74,7 +82,10 @@ class RydbergHyperfineScalingLawTest {
         assertEquals(0, law(CS, State.of(48, 1, 3)), 0);
         assertEquals(0.00972858701347, law(CS, State.of(40, 1, 3)), 1e-9);
         assertEquals(0.0972858701347, law(CS, State.of(31, 1, 3)), 1e-9);
-        assertEquals(0.0995148083737, law(CS, State.of(20, 1, 3)), 1e-9);
+        assertEquals(21 * 0.00972858701347, law(CS, State.of(20, 1, 3)), 1e-9);
+        assertEquals(0.2576856110141, law(CS, State.of(10, 1, 3)), 1e-9); // 31 x 0.00973 = 0.30, capped
+        // Cs nD3/2 from 7d3/2 with its own drift, 0.0517 per n
+        assertEquals(3 * 0.05172485568539, law(CS, State.of(10, 2, 3)), 1e-9);
         // and the uncertainty of A itself grows with it (Rb-87 nP1/2 from 6p: d = 0.000515 per n)
         double u7 = relative(RB87, State.of(7, 1, 1));
         double u30 = relative(RB87, State.of(30, 1, 1));
@@ -89,16 +100,17 @@ class RydbergHyperfineScalingLawTest {
 
     /**
      * Rb-87 60s from 7s (A = 319.759(28) MHz; H.-C. Chui et al. 2005, from memory): the carried uncertainty is
-     * 0.028 / 319.759 = 8.76e-5 of A; the law's 53 n x 0.0456 per n = 2.42 is capped at 0.0995: u(A) =
-     * A sqrt(8.76e-5^2 + 0.0995148^2) = 0.0995148 A (hand). Before the law was carried, u(A) was 8.76e-5 A.
+     * 0.028 / 319.759 = 8.76e-5 of A; the law's 53 n x 0.0456 per n = 2.42 is capped at 0.2577: u(A) =
+     * A sqrt(8.76e-5^2 + 0.2576856^2) = 0.2576856 A (hand). Before the law was carried, u(A) was 8.76e-5 A; before
+     * the Cs 6d constants widened the cap, 0.0995148 A.
      */
     @Test
     void aScaledConstantCarriesTheLawsErrorInQuadrature() {
         HyperfineConstants c = DATA.constants(CONTEXT, RB87, State.of(60, 0, 1)).orElseThrow();
         double carried = 0.028 / 319.759;
-        assertEquals(Math.abs(c.aHertz()) * Math.hypot(carried, 0.0995148083737), c.aUncertaintyHertz(),
+        assertEquals(Math.abs(c.aHertz()) * Math.hypot(carried, 0.2576856110141), c.aUncertaintyHertz(),
                 1e-9 * c.aUncertaintyHertz());
-        assertEquals(0.0995148, c.aUncertaintyHertz() / c.aHertz(), 1e-6);
+        assertEquals(0.2576856, c.aUncertaintyHertz() / c.aHertz(), 1e-6);
         // the measured reference level keeps its stated uncertainty only
         HyperfineConstants ref = DATA.constants(CONTEXT, RB87, State.of(7, 0, 1)).orElseThrow();
         assertEquals(0.028e6, ref.aUncertaintyHertz(), 1e-6);

@@ -11,8 +11,9 @@ Outputs (beside this script):
                             source prints (MHz or kHz; cm-1 where only a wavenumber was at hand),
                             format ritzwerk-d-lines 1
   hyperfine-constants.csv   magnetic-dipole (A) and electric-quadrupole (B) hyperfine constants of
-                            the ground level and the first p levels, and of the Cs-133 7p levels
-                            (the 459 nm and 455 nm lines), in MHz, format ritzwerk-hyperfine 1
+                            the ground level and the first p levels, of the Cs-133 7p levels
+                            (the 459 nm and 455 nm lines) and of the low d levels read in an abstract
+                            (Rb-85 4d3/2; Cs-133 6d3/2 and 6d5/2), in MHz, format ritzwerk-hyperfine 1
   d-line-checks.txt         every check below, with its numbers
 
 Hyperfine-free centroid: the frequency the line would have without hyperfine structure, i.e.
@@ -27,7 +28,8 @@ from as the citation, and each is checked by a relation that does not use it:
   check I (isotope shift): the D1 and D2 isotope shifts of an isotope pair must agree to within a few
       MHz (the mass and field shifts of the two lines of a doublet are almost equal), and where a
       published isotope shift was read, against it;
-  check S (second measurement): against a second, independent measurement where one was read;
+  check S (second measurement): against a second, independent measurement where one was read (for the
+      Cs 6d levels the earlier measurements quoted in the abstract of the newer one);
   check A (hyperfine anomaly): the ratio of an isotope pair's A constants against the ratio of their
       nuclear g factors g_I = mu / (I mu_N) from nuclear/isotopes.csv (N. J. Stone, INDC(NDS)-0794,
       2019): they differ only by the hyperfine anomaly, below 1 % for these atoms;
@@ -81,6 +83,15 @@ ARIMONDO_1977 = ("E. Arimondo, M. Inguscio and P. Violino, Rev. Mod. Phys. 49, 3
                  "doi:10.1103/RevModPhys.49.31")
 CS_7P_2022 = ("Compact 459 nm Cs cell optical frequency standard with short-term stability, arXiv:2206.09409 "
               "(2022)")
+DUSPAYEV_2023 = ("A. Duspayev and G. Raithel, Spectroscopy of the 85Rb 4D3/2 state for hyperfine-structure "
+                 "determination, arXiv:2305.00265 (2023)")
+KORTYNA_2005 = ("A. Kortyna, N. Masluk and T. Bragdon, Two-photon, sub-Doppler hyperfine measurements of the 6d 2Dj "
+                "states of cesium, APS DAMOP 2005 meeting abstract D6.8 (Lafayette College)")
+# second measurements of the Cs 6d constants, as the abstract of KORTYNA_2005 quotes them (read there)
+GEORGIADES_1994 = "N. Georgiades, E. Polzik and H. Kimble, Opt. Lett. 19, 1474 (1994), as quoted in " \
+                  "the abstract of Kortyna et al. 2005"
+TAI_1975 = "C. Tai, W. Happer and R. Gupta, Phys. Rev. A 12, 736 (1975), as quoted in the abstract of Kortyna et " \
+           "al. 2005"
 BIZE_1999 = ("S. Bize, Y. Sortais, M. S. Santos, C. Mandache, A. Clairon and C. Salomon, Europhys. Lett. 45, 558 "
              "(1999), doi:10.1209/epl/i1999-00203-9")
 SI_SECOND = ("the SI definition of the second (BIPM, The International System of Units, 9th edition, 2019): "
@@ -168,7 +179,23 @@ HYPERFINE = [
     ("Cs-133", "7p 2P1/2", "94.38", "0.06", "", "", "published",
      CS_7P_2022 + " (authors not read; read in the abstract: A of the 7P1/2 level 94.38(6) MHz)"),
     ("Cs-133", "7p 2P3/2", "16.605", "0.006", "-0.15", "0.03", "from-memory", ARIMONDO_1977),
+    # low d levels of ladder and two-photon excitation (issue 17): Rb 5p3/2 - 4d at 1529 nm, 5s - 4d3/2 two-photon
+    # via 5p1/2 (795 nm + 1476 nm); Cs 6s - 6d two-photon, 6p3/2 - 6d5/2 at 917 nm.  Only values read in an
+    # abstract; Rb 4d5/2, Rb 5d, Rb-87 4d and Cs 5d were not found in a source read here and are left out.
+    ("Rb-85", "4d 2D3/2", "7.419", "0.035", "4.19", "0.19", "published",
+     DUSPAYEV_2023 + " (read in the abstract: A = 7.419(35) MHz and B = 4.19(19) MHz from the hyperfine intervals "
+     "of the two-photon 5S1/2 - 4D3/2 transition)"),
+    ("Cs-133", "6d 2D3/2", "16.34", "0.05", "-0.1", "0.3", "published",
+     KORTYNA_2005 + " (read in the abstract: 6d 2D3/2 A = 16.34 +- 0.05 MHz and B = -0.1 +- 0.3 MHz)"),
+    ("Cs-133", "6d 2D5/2", "-4.66", "0.04", "0.9", "0.6", "published",
+     KORTYNA_2005 + " (read in the abstract: 6d 2D5/2 A = -4.66 +- 0.04 MHz and B = 0.9 +- 0.6 MHz)"),
 ]
+
+# check S of the low d levels: a second measurement of the same level, as read (value, uncertainty, source).
+SECOND_D = {
+    ("Cs-133", "6d 2D3/2"): ("16.3", "0.15", None, None, TAI_1975 + " (B < 8 MHz in size)"),
+    ("Cs-133", "6d 2D5/2"): ("-4.69", "0.04", "0.2", "0.7", GEORGIADES_1994),
+}
 
 
 # Where the from-memory digits were recalled from: the alkali data compilations that tabulate these
@@ -240,7 +267,7 @@ def splittings(species, level):
     for s, lv, a, da, b, db, prov, src in HYPERFINE:
         if s == species and lv == level:
             i = spin(species)
-            j = 0.5 if level.endswith("1/2") else 1.5
+            j = int(level[-3]) / 2  # 2J from the label: 1/2, 3/2 or 5/2
             fs = [abs(i - j) + k for k in range(int(round(i + j - abs(i - j))) + 1)]
             e = [casimir(float(a), float(b) if b else 0.0, i, j, f) for f in fs]
             return fs, e
@@ -354,7 +381,7 @@ def main():
     # check R: levels above the first p against the first p levels of their series
     for s, lv, a, da, b, db, prov, src in HYPERFINE:
         n = int(lv.split()[0][:-1])
-        if n == GROUND_N[s.split("-")[0]]:
+        if n == GROUND_N[s.split("-")[0]] or not lv.split()[0].endswith("p"):
             continue
         first = [h for h in HYPERFINE if h[0] == s and h[1] == "%dp%s" % (GROUND_N[s.split("-")[0]], lv[len(str(n)) + 1:])][0]
         scaled = float(a) * n_star(s, lv) ** 3
@@ -380,6 +407,22 @@ def main():
         hf_checked[(s, lv)].append(text)
         hf_checked[(s, lv32)].append(text)
         report.append(s + " " + text)
+    # check S of the low d levels: against a second measurement of the same level
+    for (s, lv), (a2, da2, b2, db2, name) in sorted(SECOND_D.items()):
+        rows = [h for h in HYPERFINE if h[0] == s and h[1] == lv]
+        if not rows:
+            continue
+        row = rows[0]
+        da = (float(row[3]) ** 2 + float(da2) ** 2) ** 0.5
+        text = "check S: A %s MHz against %s(%s) MHz of %s: %+.3f MHz (%.1f combined standard uncertainties)" % (
+            row[2], a2, da2, name, float(row[2]) - float(a2),
+            abs(float(row[2]) - float(a2)) / da)
+        if b2 is not None:
+            db = (float(row[5]) ** 2 + float(db2) ** 2) ** 0.5
+            text += "; B %s MHz against %s(%s) MHz: %+.2f MHz (%.1f)" % (row[4], b2, db2, float(row[4]) - float(b2),
+                                                                        abs(float(row[4]) - float(b2)) / db)
+        hf_checked[(s, lv)].append(text)
+        report.append(s + " " + lv + " " + text)
     pairs = [("Li-7", "Li-6"), ("K-40", "K-39"), ("K-41", "K-39"), ("Rb-87", "Rb-85")]
     for x, y in pairs:
         gratio = g_nuclear(x) / g_nuclear(y)
@@ -424,14 +467,17 @@ def main():
     hf = ["# ritzwerk-hyperfine 1",
           "# id: hyperfine-constants",
           "# title: Magnetic-dipole (A) and electric-quadrupole (B) hyperfine constants of the alkali ground and "
-          "first p levels, and of the Cs-133 7p levels, per isotope",
+          "first p levels, of the Cs-133 7p levels and of the low d levels of ladder and two-photon excitation "
+          "read in an abstract, per isotope",
           "# source: " + ARIMONDO_1977 + ", and the later measurements named per row",
           "# provenance: from-memory",
-          "# version: 1977-2022",
+          "# version: 1977-2023",
           "# unit: MHz",
           "# note: A and B in MHz (energy / h) with the digits their source prints; B only for J > 1/2; the "
           "hyperfine energy of level F is A K/2 + B (3K(K+1)/2 - 2I(I+1)J(J+1)) / (4I(2I-1)J(2J-1)), K = "
-          "F(F+1) - I(I+1) - J(J+1) (Arimondo et al. 1977, Eq. 2.4 as recalled; common practice); column "
+          "F(F+1) - I(I+1) - J(J+1) (Arimondo et al. 1977, Eq. 2.4 as recalled; common practice); a d level's "
+          "constants here are also measured levels of its Rydberg series for the n*^-3 law's error "
+          "(RydbergHyperfine.measuredLevels); column "
           "checked gives the splittings and the checks (d-line-checks.txt; written by make_d_lines.py)",
           "species,level,a,a-uncertainty,b,b-uncertainty,provenance,source,checked"]
     for s, lv, a, da, b, db, prov, src in HYPERFINE:
