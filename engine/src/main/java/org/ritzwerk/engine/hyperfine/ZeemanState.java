@@ -91,7 +91,8 @@ public record ZeemanState(int twoMF, int twoF, double energyHertz, double[] ampl
     @Override
     public String toString() {
         return "ZeemanState[F=" + fLabel() + ", mF=" + mFLabel() + ", " + energyHertz + " Hz, u "
-                + energyUncertaintyHertz + " Hz, dE/dB " + fieldSlopeHertzPerTesla + " Hz/T, |mJ=" + dominant.mJLabel() + " mI=" + dominant.mILabel() + "> "
+                + energyUncertaintyHertz + " Hz, dE/dB " + fieldSlopeHertzPerTesla + " Hz/T, |mJ=" + dominant.mJLabel()
+                + " mI=" + dominant.mILabel() + "> "
                 + dominant.weight() + "]";
     }
 }
