@@ -466,7 +466,7 @@ public final class ZeemanStructure {
      * {@link HyperfineStructure#components}' uncertainty there). Left out: the uncertainty of the
      * fine-structure splitting, which enters only through the field's mixing of the two J (the derivative of
      * a component by it is the weight of the other J level in the upper state, about 1e-6 for Rb at 1 T), and
-     * that of the g factors and the field.
+     * that of the g factors and the field (for the field's, see the overload with {@code fieldUncertaintyTesla}).
      *
      * @param twoI                     2 I, 0 to 40
      * @param lower                    A (and B) of the s1/2 level, with uncertainties where stated
