@@ -47,8 +47,9 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * ({@link ZeemanComponent#fieldSlopeHertzPerTesla}). Given a standard uncertainty of the field u(B), the
  * methods that take one add {@code |dE/dB| u(B)} to a state's energy uncertainty and {@code |d nu/dB| u(B)} to a
  * component's frequency uncertainty, in quadrature: first order, so good while u(B) is small against the field
- * over which the slope changes (about A / (mu_B / h), a few mT for the alkali ground levels; near a turning point,
- * where the slope is 0, the second-order part (d^2 nu/dB^2) u(B)^2 / 2 that is left out may dominate).
+ * over which the slope changes (about A / (mu_B / h): a few tenths of a tesla for the alkali ground levels, a few
+ * mT for their p3/2 levels; near a turning point, where the slope is 0, the second-order part
+ * (d^2 nu/dB^2) u(B)^2 / 2 that is left out may dominate).
  * A u(B) of 0 changes nothing, to the bit.
  *
  * <p><b>Levels and terms</b>: {@link #eigenstates} and {@link #components} diagonalise each level
