@@ -1,8 +1,9 @@
 #!/usr/bin/python3
 """Writes zeeman-component-uncertainties.csv and zeeman-state-uncertainties.csv: the m_F-resolved Zeeman
 components of the Rb-87 D1 and D2 lines, and the eigenstates of the Cs-133 6p3/2 level, at several fields,
-each with the standard uncertainty propagated from the published numbers and the largest |J m_J m_I>
-component of each state with its weight, for ZeemanUncertaintyTest.
+each with the standard uncertainty propagated from the published numbers, the largest |J m_J m_I>
+component of each state with its weight, and the slope by the field (d nu/dB of a component, dE/dB of a
+state, Hz per tesla), for ZeemanUncertaintyTest.
 
 Run from this folder:   python3 make_zeeman_uncertainty_golden.py
 Needs sympy and mpmath (run here with sympy 1.14.0 and mpmath 1.3.0 under Python 3.11; Debian
@@ -23,6 +24,13 @@ coefficients and takes derivatives by the Hellmann-Feynman theorem):
     block given to its states by rising energy (states of one m_F do not cross);
   * every derivative of an eigenvalue by A or B is NUMERICAL: a central difference with a step of 1 Hz on
     the 40-digit eigenvalues (truncation error below 1e-15 relative), not the Hellmann-Feynman expectation;
+  * so is every derivative by the field (column field_slope_hz_per_t): a central difference with a step of
+    1e-9 T on the 40-digit eigenvalues of the whole Hamiltonian rebuilt at B -+ 1e-9 T (same m_F block and
+    rank; the slopes change over a few mT, A / (mu_B / h), so the truncation error is below 1e-12 relative),
+    a component's the upper state's minus the lower's; at zero field the script asserts that each state's
+    slope is g_F m_F mu_B / h with g_F = g_J [F(F+1) + J(J+1) - I(I+1)] / [2F(F+1)]
+    + g_I [F(F+1) + I(I+1) - J(J+1)] / [2F(F+1)] (common practice; g_J of s1/2 g_S, of p the Lande value
+    with g_L = 1);
   * u(E)^2 = sum over the constants (dE/dX u_X)^2, all constants independent (GUM, JCGM 100:2008, eq. 10,
     from memory; no source states a covariance); a component's u^2 = u_centroid^2 + u(E_lower)^2 +
     u(E_upper)^2; the column hyperfine_uncertainty_hz leaves the centroid's out;
@@ -204,6 +212,30 @@ def uncertainties(atom, build, constants, stated):
     return {k: mpmath.sqrt(v) for k, v in u2.items()}
 
 
+SLOPE_STEP = M("1e-9")
+
+
+def slopes(atom, build_at, constants, tesla):
+    """dE/dB (Hz per tesla) of every eigenvalue, keyed by 2mF and rank: central difference in the field."""
+    up = energies(atom, build_at(tesla + SLOPE_STEP), constants)
+    dn = energies(atom, build_at(tesla - SLOPE_STEP), constants)
+    return {k: (up[k] - dn[k]) / (2 * SLOPE_STEP) for k in up}
+
+
+def g_f(two_j, two_i, two_f, g_j, g_i):
+    """g_F of a hyperfine level (common practice); 0 for F = 0."""
+    if two_f == 0:
+        return M(0)
+    i, j, f = M(two_i) / 2, M(two_j) / 2, M(two_f) / 2
+    ff, ii, jj = f * (f + 1), i * (i + 1), j * (j + 1)
+    return g_j * (ff + jj - ii) / (2 * ff) + g_i * (ff + ii - jj) / (2 * ff)
+
+
+def check_weak_slope(slope, two_j, two_i, two_f, two_mf, g_j, g_i):
+    expected = g_f(two_j, two_i, two_f, g_j, g_i) * M(two_mf) / 2 * MU_B
+    assert abs(slope - expected) < M("1e-12") * MU_B, (two_j, two_f, two_mf, slope, expected)
+
+
 def dominant(atom, v, js):
     best = None
     for two_j in js:
@@ -267,6 +299,13 @@ P12, P32 = P.projector(1), P.projector(3)
 Q32 = P.quadrupole(3)
 
 
+def lande_p(two_j):
+    """g_J of a p level by the Lande formula with g_L = 1 and g_S."""
+    j = M(two_j) / 2
+    jj = j * (j + 1)
+    return (jj - M(3) / 4 + 2) / (2 * jj) + G_S * (jj + M(3) / 4 - 2) / (2 * jj)
+
+
 def ground_h(tesla):
     return lambda c: S.IJ * c["As"] + S.zeeman(RB_G_I, tesla)
 
@@ -298,6 +337,8 @@ for tesla in (M(0), M("1e-4"), M("0.01"), M(1)):
     up = blocks(P, term_h(tesla)(RB), term_labels)
     u_lo = uncertainties(S, ground_h(tesla), RB, {"As": RB_U["As"]})
     u_up = uncertainties(P, term_h(tesla), RB, {k: RB_U[k] for k in ("Ap12", "Ap32", "Bp32")})
+    s_lo = slopes(S, ground_h, RB, tesla)
+    s_up = slopes(P, term_h, RB, tesla)
     rank_lo, rank_up = {}, {}
     for mf, e, v, lab in lo:
         rank_lo.setdefault(mf, 0)
@@ -309,6 +350,7 @@ for tesla in (M(0), M("1e-4"), M("0.01"), M(1)):
             dl = dominant(S, v, (1,))
             if tesla == 0:
                 check_cg(S, v, 1, lab[1], mf)
+                check_weak_slope(s_lo[(mf, rl)], 1, RB_I, lab[1], mf, G_S, RB_G_I)
             ranks_u = {}
             for mfu, eu, vu, labu in up:
                 ru = ranks_u[mfu] = ranks_u.get(mfu, -1) + 1
@@ -326,6 +368,7 @@ for tesla in (M(0), M("1e-4"), M("0.01"), M(1)):
                 du = dominant(P, vu, (1, 3))
                 if tesla == 0:
                     check_cg(P, vu, labu[0], labu[1], mfu)
+                    check_weak_slope(s_up[(mfu, ru)], labu[0], RB_I, labu[1], mfu, lande_p(labu[0]), RB_G_I)
                 freq = low_centroid + eu - e
                 u_hf = mpmath.sqrt(u_lo[(mf, rl)] ** 2 + u_up[(mfu, ru)] ** 2)
                 component_rows.append((
@@ -333,16 +376,22 @@ for tesla in (M(0), M("1e-4"), M("0.01"), M(1)):
                     nstr(mpmath.sqrt(u_c ** 2 + u_hf ** 2), 15), nstr(u_hf, 15), nstr(share, 15),
                     half(dl[1]), half(dl[2]), nstr(dl[3], 15), half(du[1]), half(du[2]), nstr(du[3], 15),
                     nstr(cg_weight(1, RB_I, lab[1], mf, dl), 15) if tesla == 0 else "",
-                    nstr(cg_weight(labu[0], RB_I, labu[1], mfu, du), 15) if tesla == 0 else ""))
+                    nstr(cg_weight(labu[0], RB_I, labu[1], mfu, du), 15) if tesla == 0 else "",
+                    nstr(s_up[(mfu, ru)] - s_lo[(mf, rl)], 15)))
 write("zeeman-component-uncertainties.csv",
       ["# tolerance: 1e-12 relative (frequency: double arithmetic on a 3.8e14 Hz centroid and the engine's fine "
        "structure from its level energies)",
        "# tolerance uncertainty: 1e-6 relative (u: the engine's Hellmann-Feynman derivatives in double precision "
        "against 40-digit central differences)",
-       "# tolerance weight: 1e-9 absolute (shares and weights: double-precision eigenvectors)"],
+       "# tolerance weight: 1e-9 absolute (shares and weights: double-precision eigenvectors)",
+       "# tolerance field_slope: 1e-6 relative (d nu/dB: the engine's Hellmann-Feynman expectation in double "
+       "precision against 40-digit central differences in the field)",
+       "# tolerance field_slope_floor: 10 absolute (Hz per tesla, added to the relative one for slopes near 0: "
+       "7e-10 of mu_B / h)"],
       ["field_tesla", "line", "twice_f_lower", "twice_mf_lower", "twice_f_upper", "twice_mf_upper", "frequency_hz",
        "uncertainty_hz", "hyperfine_uncertainty_hz", "relative_strength", "lower_m_j", "lower_m_i", "lower_weight",
-       "upper_m_j", "upper_m_i", "upper_weight", "lower_cg_weight", "upper_cg_weight"], component_rows)
+       "upper_m_j", "upper_m_i", "upper_weight", "lower_cg_weight", "upper_cg_weight", "field_slope_hz_per_t"],
+      component_rows)
 
 # ---- 2. Cs-133 6p3/2 on its own
 CS_I = 7
@@ -369,6 +418,7 @@ state_rows = []
 for tesla in (M(0), M("1e-3"), M("0.1"), M(1)):
     states = blocks(CP, cs_h(tesla)(CS), cs_labels)
     u = uncertainties(CP, cs_h(tesla), CS, CS_U)
+    slope = slopes(CP, cs_h, CS, tesla)
     ranks = {}
     for mf, e, v, lab in states:
         r = ranks[mf] = ranks.get(mf, -1) + 1
@@ -377,13 +427,18 @@ for tesla in (M(0), M("1e-3"), M("0.1"), M(1)):
         d = dominant(CP, v, (3,))
         if tesla == 0:
             check_cg(CP, v, 3, lab[1], mf)
+            check_weak_slope(slope[(mf, r)], 3, CS_I, lab[1], mf, lande_p(3), CS_G_I)
         state_rows.append((nstr(tesla, 6), lab[1], mf, nstr(e), nstr(u[(mf, r)], 15), half(d[1]), half(d[2]),
-                           nstr(d[3], 15), nstr(cg_weight(3, CS_I, lab[1], mf, d), 15) if tesla == 0 else ""))
+                           nstr(d[3], 15), nstr(cg_weight(3, CS_I, lab[1], mf, d), 15) if tesla == 0 else "",
+                           nstr(slope[(mf, r)], 15)))
 write("zeeman-state-uncertainties.csv",
       ["# tolerance: 1e-3 absolute (energy, Hz: double-precision diagonalisation of matrices of up to 3e10 Hz)",
        "# tolerance uncertainty: 1e-6 relative (Hellmann-Feynman in double precision against 40-digit central "
        "differences)",
-       "# tolerance weight: 1e-9 absolute"],
+       "# tolerance weight: 1e-9 absolute",
+       "# tolerance field_slope: 1e-6 relative (dE/dB: Hellmann-Feynman in double precision against 40-digit central "
+       "differences in the field)",
+       "# tolerance field_slope_floor: 10 absolute (Hz per tesla, added to the relative one for slopes near 0)"],
       ["field_tesla", "twice_f", "twice_mf", "energy_hz", "energy_uncertainty_hz", "m_j", "m_i", "weight",
-       "cg_weight"], state_rows)
+       "cg_weight", "field_slope_hz_per_t"], state_rows)
 print("wrote %d component and %d state rows" % (len(component_rows), len(state_rows)))

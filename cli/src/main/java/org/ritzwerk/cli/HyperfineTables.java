@@ -22,16 +22,33 @@ final class HyperfineTables {
 
     /** The option that asks for Zeeman components, in tesla. */
     static final String FIELD_OPTION = "--field-tesla";
+    /** The option that gives the field's standard uncertainty, in tesla. */
+    static final String FIELD_UNCERTAINTY_OPTION = "--field-uncertainty-tesla";
 
-    /** What a Zeeman component's {@code u Hz} and {@code mJ mI weight} columns hold. */
-    static final String ZEEMAN_NOTE = "note: --field-tesla: u Hz is each component's own standard uncertainty: its "
-            + "centroid's and its two states' energies' from the stated uncertainties of A and B (first order, by the "
-            + "Hellmann-Feynman theorem; at 0 T those of the F -> F' components), as independent; left out: the g "
-            + "factors', the field's, and the fine-structure splitting's (it enters only through the field's mixing "
-            + "of p1/2 and p3/2). mJ mI weight: each state's largest |m_J m_I> component and its squared amplitude, "
-            + "the label that holds at high field, where F and mF only name the zero-field level a state connects to; "
-            + "J' is that component's J, since p1/2 and p3/2 are diagonalised together and the field mixes them (for "
-            + "Li from about a tesla up the largest may be the other J) (README, Hyperfine and Zeeman structure)";
+    /**
+     * What a Zeeman component's {@code u Hz}, {@code dnu/dB} and {@code mJ mI weight} columns hold.
+     *
+     * @param fieldUncertaintyTesla the field's standard uncertainty as given, tesla, or null when not given
+     * @return the note
+     */
+    static String zeemanNote(Double fieldUncertaintyTesla) {
+        String field = fieldUncertaintyTesla == null ? "the field's (taken as exact; give " + FIELD_UNCERTAINTY_OPTION
+                + "), " : "";
+        String given = fieldUncertaintyTesla == null ? "" : ", and the field's, |dnu/dB| times the "
+                + FIELD_UNCERTAINTY_OPTION + " " + fieldText(fieldUncertaintyTesla) + " T (first order: near a "
+                + "turning point, dnu/dB about 0, the second-order part left out may be larger)";
+        return "note: --field-tesla: u Hz is each component's own standard uncertainty: its centroid's and its two "
+                + "states' energies' from the stated uncertainties of A and B (first order, by the Hellmann-Feynman "
+                + "theorem; at 0 T those of the F -> F' components), as independent" + given + "; left out: the g "
+                + "factors', " + field + "and the fine-structure splitting's (it enters only through the field's "
+                + "mixing of p1/2 and p3/2). dnu/dB: the component's first derivative by the field at this field, "
+                + "MHz per mT (JSON and CSV field_slope_hz_per_t, Hz per tesla; exact by Hellmann-Feynman; about 0 "
+                + "for a field-insensitive component). mJ mI weight: each state's largest |m_J m_I> component and its "
+                + "squared amplitude, the label that holds at high field, where F and mF only name the zero-field "
+                + "level a state connects to; J' is that component's J, since p1/2 and p3/2 are diagonalised together "
+                + "and the field mixes them (for Li from about a tesla up the largest may be the other J) (README, "
+                + "Hyperfine and Zeeman structure)";
+    }
 
     private HyperfineTables() {
     }
@@ -42,12 +59,13 @@ final class HyperfineTables {
      * @param context    the data context
      * @param atoms      alkali atoms (isotopes)
      * @param fieldTesla the field in tesla, or null for the zero-field F -> F' components
+     * @param fieldUncertaintyTesla the field's standard uncertainty in tesla, or null to take the field as exact
      * @param air        whether to add each component's wavelength in standard air
      * @param out        where the table goes
      * @param format     the table format
      */
-    static void print(DataContext context, List<AlkaliAtom> atoms, Double fieldTesla, boolean air, PrintWriter out,
-            Table.Format format) {
+    static void print(DataContext context, List<AlkaliAtom> atoms, Double fieldTesla, Double fieldUncertaintyTesla,
+            boolean air, PrintWriter out, Table.Format format) {
         AlkaliHyperfine data = context.alkaliHyperfine();
         for (AlkaliAtom atom : atoms) {
             if (data.dLines(atom.species()).isEmpty()) {
@@ -74,6 +92,10 @@ final class HyperfineTables {
         }
         columns.add(Table.Column.number("frequency_hz", "Hz", "%.12e"));
         columns.add(Table.Column.number("uncertainty_hz", "u Hz", "%.2g"));
+        if (zeeman) { // Hz per tesla in JSON and CSV; MHz per mT (1e9 Hz per tesla) in text
+            columns.add(new Table.Column("field_slope_hz_per_t", "dnu/dB MHz/mT", value -> Table.unsignedZero(
+                    String.format(java.util.Locale.ROOT, "%.6f", ((Double) value) / 1e9))));
+        }
         columns.addAll(List.of(
                 Table.Column.number("offset_mhz", "MHz from centroid", "%.4f"),
                 Table.Column.number("vacuum_wavelength_nm", "vacuum nm", "%.7f")));
@@ -84,6 +106,9 @@ final class HyperfineTables {
         if (zeeman) {
             columns.add(Table.Column.number("field_tesla", "T", "%.6g"));
         }
+        if (fieldUncertaintyTesla != null) {
+            columns.add(Table.Column.number("field_uncertainty_tesla", "u T", "%.2g"));
+        }
         Table table = new Table(columns, out, format);
         for (AlkaliAtom atom : atoms) {
             Species species = atom.species();
@@ -92,7 +117,8 @@ final class HyperfineTables {
                 State upper = State.of(ground.n(), 1, d.twoJUpper());
                 double centroid = atom.frequencyHz(ground, upper);
                 if (zeeman) {
-                    for (ZeemanComponent c : data.zeemanComponents(context, species, ground, upper, fieldTesla)) {
+                    for (ZeemanComponent c : data.zeemanComponents(context, species, ground, upper, fieldTesla,
+                            fieldUncertaintyTesla == null ? 0 : fieldUncertaintyTesla)) {
                         List<Object> row = new java.util.ArrayList<>(List.of(species.notation(), d.line(),
                                 ground.notation() + " F=" + half(c.twoFLower()) + " mF=" + half(c.twoMFLower()),
                                 c.lowerDominant().mJLabel(), c.lowerDominant().mILabel(), c.lowerDominant().weight(),
@@ -102,9 +128,13 @@ final class HyperfineTables {
                                 c.q() == 0 ? "pi" : c.q() > 0 ? "sigma+" : "sigma-"));
                         row.add(c.frequencyHertz());
                         row.add(c.frequencyUncertaintyHertz());
+                        row.add(c.fieldSlopeHertzPerTesla());
                         addOffsetAndWavelengths(row, c.frequencyHertz(), centroid, air);
                         row.add(c.relativeStrength());
                         row.add(fieldTesla);
+                        if (fieldUncertaintyTesla != null) {
+                            row.add(fieldUncertaintyTesla);
+                        }
                         table.add(row.toArray());
                     }
                 } else {
@@ -224,11 +254,6 @@ final class HyperfineTables {
                 + "; nuclear spin and moment: the isotope table (ritzwerk data show nuclear-isotopes)";
     }
 
-    /**
-     * The note that the components leave out the diamagnetic shift, with its size on each D line at this field:
-     * {@code AlkaliHyperfine.diamagneticLineShiftHertz} on each D line, each level's from the model's
-     * {@code <r^2>}.
-     */
     /** Reads {@code --field-tesla}: a plain number of tesla; a value with a unit gets a message saying so. */
     static final class Tesla implements picocli.CommandLine.ITypeConverter<Double> {
         @Override
@@ -243,6 +268,25 @@ final class HyperfineTables {
         }
     }
 
+    /** Reads {@code --field-uncertainty-tesla}: a plain number of tesla; with a unit, a message saying so. */
+    static final class FieldUncertainty implements picocli.CommandLine.ITypeConverter<Double> {
+        @Override
+        public Double convert(String value) {
+            try {
+                return Double.valueOf(value.strip());
+            } catch (NumberFormatException e) {
+                throw new picocli.CommandLine.TypeConversionException("'" + value + "' is not a number: "
+                        + FIELD_UNCERTAINTY_OPTION + " takes the field's standard uncertainty in tesla as a plain "
+                        + "number, without a unit (e.g. 1e-6 for 10 mG, 1e-7 for 1 mG)");
+            }
+        }
+    }
+
+    /**
+     * The note that the components leave out the diamagnetic shift, with its size on each D line at this field:
+     * {@code AlkaliHyperfine.diamagneticLineShiftHertz} on each D line, each level's from the model's
+     * {@code <r^2>}.
+     */
     static String diamagneticNote(AlkaliAtom atom, double fieldTesla) {
         State ground = atom.groundState();
         double d1 = AlkaliHyperfine.diamagneticLineShiftHertz(atom, ground, new State(ground.n(), 1, 1), fieldTesla);

@@ -101,6 +101,13 @@ final class LinesCommand implements Callable<Integer> {
                     + "diagonalised, so p1/2 and p3/2 mix as the field grows, up to the Paschen-Back regime).")
     Double fieldTesla;
 
+    @Option(names = HyperfineTables.FIELD_UNCERTAINTY_OPTION, paramLabel = "TESLA",
+            converter = HyperfineTables.FieldUncertainty.class,
+            description = "With --field-tesla: the field's standard uncertainty, tesla as a plain number (1e-6 for "
+                    + "10 mG); each component's u Hz takes |dnu/dB| times it in quadrature (first order). Default: "
+                    + "the field taken as exact.")
+    Double fieldUncertaintyTesla;
+
     @Option(names = "--intercombination",
             description = "Level lists (He I, Sr I): also the lines between terms of different spin (intercombination "
                     + "lines between singlets and triplets), the other LS rules (Delta L = 0, +-1) still applying; by "
@@ -132,6 +139,9 @@ final class LinesCommand implements Callable<Integer> {
         }
         rules.refuseUnless("--temperature", transition != null, "without --transition (it sets the black-body"
                 + " temperature of the effective lifetimes --transition prints)");
+        rules.refuseUnless(HyperfineTables.FIELD_UNCERTAINTY_OPTION, fieldTesla != null, "without "
+                + HyperfineTables.FIELD_OPTION + " (it is that field's standard uncertainty, carried into the Zeeman "
+                + "components' u Hz)");
         String listed = LevelSets.names(levelSets.levels());
         boolean lists = !levelSets.levels().isEmpty();
         rules.refuseUnless("--l-max", !atoms.alkalis().isEmpty(), (atoms.ions().isEmpty()
@@ -266,8 +276,12 @@ final class LinesCommand implements Callable<Integer> {
         if (fieldTesla != null) {
             OptionRules.range(HyperfineTables.FIELD_OPTION, fieldTesla, 0, true, 1000, "a field of 0 to 1000 T");
         }
-        HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, AxisMedium.isAir(medium),
-                spec.commandLine().getOut(), format);
+        if (fieldUncertaintyTesla != null) {
+            OptionRules.range(HyperfineTables.FIELD_UNCERTAINTY_OPTION, fieldUncertaintyTesla, 0, true, 1000,
+                    "a standard uncertainty of 0 to 1000 T");
+        }
+        HyperfineTables.print(data.context(), atoms.alkalis(), fieldTesla, fieldUncertaintyTesla,
+                AxisMedium.isAir(medium), spec.commandLine().getOut(), format);
         for (AlkaliAtom atom : atoms.alkalis()) {
             spec.commandLine().getErr().println(HyperfineTables.sourcesNote(data.context(), atom));
         }
@@ -277,7 +291,7 @@ final class LinesCommand implements Callable<Integer> {
             }
         }
         if (fieldTesla != null) {
-            spec.commandLine().getErr().println(HyperfineTables.ZEEMAN_NOTE);
+            spec.commandLine().getErr().println(HyperfineTables.zeemanNote(fieldUncertaintyTesla));
             spec.commandLine().getErr().flush();
         }
         return 0;

@@ -215,6 +215,7 @@ class ContractFuzzTest {
         String[] lines = {"lines", "--species", "H", "--from", "640 nm", "--to", "670 nm"};
         String[] alkali = {"levels", "--species", "Rb-87 I", "--n-max", "7", "--lifetimes"};
         String[] hyperfine = {"lines", "--species", "Rb-87 I", "--hyperfine"};
+        String[] zeeman = {"lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1e-4"};
         Path series = dir.resolve("fixed-series.csv");
         Files.copy(Path.of("src", "test", "resources", "org", "ritzwerk", "cli", "series-rb-87.csv"), series);
         String[] fit = {"series", series.toString()};
@@ -235,7 +236,7 @@ class ContractFuzzTest {
             {synth, "--resolving-power"}, {synth, "--pixels"}, {synth, "--n-max"}, {synth, "--peak-counts"},
             {synth, "--read-noise"}, {synth, "--electron-density"}, {synth, "--threads"}, {synth, "--dispersion"},
             {lines, "--n-max"}, {lines, "--min-a"}, {alkali, "--temperature"}, {alkali, "--l-max"},
-            {hyperfine, "--field-tesla"},
+            {hyperfine, "--field-tesla"}, {zeeman, "--field-uncertainty-tesla"},
             {fit, "--predict"}, {fit, "--max-terms"}, {polarizability, "--range"}, {starkMap, "--field-max"},
             {starkMap, "--window"}, {pair, "--rabi"}, {pair, "--angle"}, {pair, "--range"},
             {microwave, "--field"}, {microwave, "--splitting"}, {microwave, "--near"},

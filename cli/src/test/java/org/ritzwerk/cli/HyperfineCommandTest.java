@@ -200,8 +200,8 @@ class HyperfineCommandTest {
         CliTest.Run zeeman = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "0.001",
                 "--medium", "air", "--format", "csv");
         assertTrue(zeeman.out().startsWith("species,line,lower,lower_m_j,lower_m_i,lower_weight,upper,upper_j,"
-                + "upper_m_j,upper_m_i,upper_weight,polarisation,frequency_hz,uncertainty_hz,offset_mhz,"
-                + "vacuum_wavelength_nm,air_wavelength_nm,relative_strength,field_tesla"), zeeman.out());
+                + "upper_m_j,upper_m_i,upper_weight,polarisation,frequency_hz,uncertainty_hz,field_slope_hz_per_t,"
+                + "offset_mhz,vacuum_wavelength_nm,air_wavelength_nm,relative_strength,field_tesla\n"), zeeman.out());
     }
 
     /**
@@ -260,6 +260,82 @@ class HyperfineCommandTest {
                 "--format", "csv");
         assertTrue(java.util.Arrays.stream(lithium.out().split("\n")).map(r -> r.replace("\"", "").split(","))
                 .anyMatch(f -> f[1].equals("D2") && f[7].equals("1/2")), lithium.out());
+    }
+
+    /**
+     * The field slope column: the Rb-87 D2 cycling component F = 2, m_F = 2 -> F' = 3, m_F' = 3 moves by exactly
+     * mu_B / h = 13.996 GHz/T (1.4 MHz/G; common practice: both states stretched, g_L = 1; CODATA 2018 mu_B / h,
+     * from memory) at any field, printed in MHz/mT in text; with --field-uncertainty-tesla each u Hz takes
+     * |dnu/dB| u(B) in quadrature (ZeemanUncertaintyTest checks every component against 40-digit central
+     * differences), the option's value in its own column, and 0 changes no u Hz.
+     */
+    @Test
+    void fieldSlopeAndFieldUncertainty() {
+        CliTest.Run csv = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1e-4",
+                "--format", "csv");
+        assertEquals(0, csv.code(), csv.err());
+        CliTest.Run known = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1e-4",
+                "--field-uncertainty-tesla", "1e-6", "--format", "csv");
+        assertEquals(0, known.code(), known.err());
+        CliTest.Run zero = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1e-4",
+                "--field-uncertainty-tesla", "0", "--format", "csv");
+        String[] rows = csv.out().strip().split("\n");
+        String[] knownRows = known.out().strip().split("\n");
+        String[] zeroRows = zero.out().strip().split("\n");
+        assertTrue(knownRows[0].endsWith(",relative_strength,field_tesla,field_uncertainty_tesla"), knownRows[0]);
+        assertEquals(rows.length, knownRows.length);
+        int cycling = 0;
+        for (int i = 1; i < rows.length; i++) {
+            String[] f = rows[i].replace("\"", "").split(",");
+            String[] k = knownRows[i].replace("\"", "").split(",");
+            String[] z = zeroRows[i].replace("\"", "").split(",");
+            double u = Double.parseDouble(f[13]);
+            double slope = Double.parseDouble(f[14]);
+            assertEquals(Math.hypot(u, slope * 1e-6), Double.parseDouble(k[13]), 1e-9 * u, knownRows[i]);
+            assertEquals(f[13], z[13], zeroRows[i]); // u(B) = 0: the same text, to the last digit
+            assertEquals("1.0E-6", k[k.length - 1], knownRows[i]);
+            if (f[1].equals("D2") && f[2].endsWith("F=2 mF=2") && f[6].endsWith("F'=3 mF'=3")) {
+                assertEquals(13.9962449361e9, slope, 1, rows[i]);
+                cycling++;
+            }
+        }
+        assertEquals(1, cycling, csv.out());
+        assertTrue(known.err().contains("and the field's, |dnu/dB| times the --field-uncertainty-tesla 0.000001 T"),
+                known.err());
+        assertTrue(csv.err().contains("the field's (taken as exact; give --field-uncertainty-tesla)"), csv.err());
+        // text: MHz per mT; JSON: Hz per tesla
+        CliTest.Run text = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1e-4");
+        assertTrue(text.out().contains("dnu/dB MHz/mT"), text.out());
+        assertTrue(text.out().lines().anyMatch(l -> l.contains("5s 2S1/2 F=2 mF=2") && l.contains("F'=3 mF'=3")
+                && l.contains(" 13.996245 ")), text.out());
+        CliTest.Run json = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1e-4",
+                "--format", "json");
+        assertTrue(json.out().contains("\"field_slope_hz_per_t\":1.399624493"), json.out());
+    }
+
+    @Test
+    void badFieldUncertaintyIsRefusedWithExit2() {
+        String[] base = {"lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "1e-4",
+            "--field-uncertainty-tesla"};
+        for (String[] bad : new String[][] {{"-1e-6", "must be a standard uncertainty of 0 to 1000 T, got -1e-6"},
+            {"NaN", "must be a standard uncertainty of 0 to 1000 T, got a value that is not a number"},
+            {"Infinity", "must be a standard uncertainty of 0 to 1000 T, got an infinite value"},
+            {"10 mG", "--field-uncertainty-tesla takes the field's standard uncertainty in tesla as a plain number, "
+                + "without a unit (e.g. 1e-6 for 10 mG"}}) {
+            String[] args = java.util.Arrays.copyOf(base, base.length + 1);
+            args[base.length] = bad[0];
+            CliTest.Run run = CliTest.run(args);
+            assertEquals(2, run.code(), bad[0] + ": " + run.err());
+            assertTrue(run.err().contains(bad[1]), bad[0] + ": " + run.err());
+        }
+        // without --field-tesla it would have no effect: refused, with --hyperfine or in any other table
+        for (String[] args : new String[][] {{"lines", "--species", "Rb-87 I", "--hyperfine",
+            "--field-uncertainty-tesla", "1e-6"}, {"lines", "--species", "Rb-87 I", "--transition", "5s1/2 -> 5p3/2",
+            "--field-uncertainty-tesla", "1e-6"}}) {
+            CliTest.Run run = CliTest.run(args);
+            assertEquals(2, run.code(), run.err());
+            assertTrue(run.err().contains("--field-uncertainty-tesla has no effect without --field-tesla"), run.err());
+        }
     }
 
     @Test

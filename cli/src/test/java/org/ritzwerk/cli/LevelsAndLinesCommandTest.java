@@ -277,12 +277,12 @@ class LevelsAndLinesCommandTest {
         assertEquals(0.1216, twoS.get("lifetime_s").asDouble(), 0.0001, twoS.toString());
     }
 
-    /** Every field of lines --hyperfine in JSON (with a field and air) is named in the README. */
+    /** Every field of lines --hyperfine in JSON (with a field, its uncertainty and air) is named in the README. */
     @Test
     void theHyperfineJsonFieldsAreDocumented() throws java.io.IOException {
         String readme = java.nio.file.Files.readString(java.nio.file.Path.of("..", "README.md"));
         CliTest.Run run = CliTest.run("lines", "--species", "Rb-87 I", "--hyperfine", "--field-tesla", "0.001",
-                "--medium", "air", "--format", "json");
+                "--field-uncertainty-tesla", "1e-6", "--medium", "air", "--format", "json");
         assertEquals(0, run.code(), run.err());
         JsonNode row = new JsonMapper().readTree(run.out().lines().findFirst().orElseThrow());
         List<String> missing = new ArrayList<>();

@@ -403,11 +403,32 @@ public final class AlkaliHyperfine {
      *         centroid's, {@link AlkaliAtom#frequencyUncertaintyHz}, and the two states' energy uncertainties from
      *         the stated u(A), u(B) of the levels, first order by the Hellmann-Feynman theorem, in quadrature; at
      *         zero field equal to {@link #components}'; NaN when the centroid has none) and the largest
-     *         |m_J m_I> component of each state with its weight
+     *         |m_J m_I> component of each state with its weight, and its slope d nu/dB (Hz per tesla,
+     *         {@link ZeemanComponent#fieldSlopeHertzPerTesla}); the field taken as exact
      * @throws ReferenceDataException when either level has no constants or the nucleus no moment
      */
     public List<ZeemanComponent> zeemanComponents(DataContext context, Species species, State lower, State upper,
             double fieldTesla) {
+        return zeemanComponents(context, species, lower, upper, fieldTesla, 0);
+    }
+
+    /**
+     * {@link #zeemanComponents(DataContext, Species, State, State, double)} with the field's standard uncertainty:
+     * each component's frequency uncertainty takes {@code |d nu/dB| u(B)} in quadrature, first order (one field
+     * error moves both states, so the component's own slope enters; see {@link ZeemanStructure}). A u(B) of 0
+     * gives the same components, to the bit.
+     *
+     * @param context               the data context
+     * @param species               an isotope with constants for both levels
+     * @param lower                 the lower level
+     * @param upper                 the upper level
+     * @param fieldTesla            the field, tesla, 0 to {@link ZeemanStructure#MAX_FIELD_TESLA}
+     * @param fieldUncertaintyTesla the field's standard uncertainty, tesla; finite, not negative
+     * @return the components by frequency
+     * @throws ReferenceDataException when either level has no constants or the nucleus no moment
+     */
+    public List<ZeemanComponent> zeemanComponents(DataContext context, Species species, State lower, State upper,
+            double fieldTesla, double fieldUncertaintyTesla) {
         Pair p = pair(context, species, lower, upper);
         Nucleus nucleus = context.nucleus(species);
         double gI = nucleus.magneticMoment().isPresent() && p.twoI > 0
@@ -421,12 +442,12 @@ public final class AlkaliHyperfine {
                 AlkaliAtom atom = context.alkaliAtom(species);
                 return ZeemanStructure.termComponents(p.twoI, p.lower, 1, low.get().constants(), high.get().constants(),
                         atom.frequencyHz(p12, p32), upper.twoJ(), gI, p.centroid, p.centroidUncertainty,
-                        fieldTesla);
+                        fieldTesla, fieldUncertaintyTesla);
             }
         }
         return ZeemanStructure.components(p.twoI, lower.twoJ(), p.lower, ZeemanStructure.landeG(lower.l(), lower.twoJ()),
                 upper.twoJ(), p.upper, ZeemanStructure.landeG(upper.l(), upper.twoJ()), gI, p.centroid,
-                p.centroidUncertainty, fieldTesla);
+                p.centroidUncertainty, fieldTesla, fieldUncertaintyTesla);
     }
 
     /**

@@ -21,8 +21,8 @@ import org.ritzwerk.testing.Golden;
 /**
  * Standard uncertainties and |m_J m_I> labels of Zeeman components and states, against golden files written
  * offline by {@code make_zeeman_uncertainty_golden.py}: the Hamiltonians built there in the fully uncoupled
- * basis |m_L m_S m_I> from ladder operators, diagonalised by mpmath at 40 digits, the energies' derivatives by A
- * and B taken by central differences (not the Hellmann-Feynman expectation the engine uses), and the
+ * basis |m_L m_S m_I> from ladder operators, diagonalised by mpmath at 40 digits, the energies' derivatives by A,
+ * B and the field taken by central differences (not the Hellmann-Feynman expectations the engine uses), and the
  * |J m_J m_I> weights from sympy's Clebsch-Gordan coefficients; from the published numbers named in the script.
  */
 class ZeemanUncertaintyTest {
@@ -38,6 +38,8 @@ class ZeemanUncertaintyTest {
         double tol = Golden.tolerance(COMPONENTS);
         double uTol = Golden.tolerance(COMPONENTS, "uncertainty");
         double wTol = Golden.absoluteTolerance(COMPONENTS, "weight");
+        double sTol = Golden.tolerance(COMPONENTS, "field_slope");
+        double sFloor = Golden.absoluteTolerance(COMPONENTS, "field_slope_floor");
         List<Map<String, String>> rows = Golden.rows(COMPONENTS);
         assertEquals(408, rows.size());
         AlkaliAtom atom = DATA.alkaliAtom(RB87);
@@ -53,6 +55,8 @@ class ZeemanUncertaintyTest {
                 List<Map<String, String>> expected = rows.stream().filter(r -> Double.parseDouble(
                         r.get("field_tesla")) == tesla && r.get("line").equals(line)).toList();
                 List<ZeemanComponent> actual = data.zeemanComponents(DATA, RB87, ground, upper, tesla);
+                // a field known to 1e-6 T (10 mG): each u takes |d nu/dB| 1e-6 T in quadrature
+                List<ZeemanComponent> fieldKnown = data.zeemanComponents(DATA, RB87, ground, upper, tesla, 1e-6);
                 // the hyperfine part alone: the centroid's uncertainty taken as 0
                 List<ZeemanComponent> hyperfineOnly = ZeemanStructure.termComponents(3, constants(RB87, ground), 1,
                         constants(RB87, p12), constants(RB87, p32), atom.frequencyHz(p12, p32), upper.twoJ(), gI,
@@ -68,6 +72,11 @@ class ZeemanUncertaintyTest {
                     close(row, "hyperfine_uncertainty_hz", find(hyperfineOnly, row).frequencyUncertaintyHertz(), uTol,
                             what);
                     assertEquals(Double.parseDouble(row.get("relative_strength")), c.relativeStrength(), wTol, what);
+                    double slope = Double.parseDouble(row.get("field_slope_hz_per_t"));
+                    assertEquals(slope, c.fieldSlopeHertzPerTesla(), sTol * Math.abs(slope) + sFloor, what + " slope");
+                    double withField = Math.hypot(Double.parseDouble(row.get("uncertainty_hz")), slope * 1e-6);
+                    assertEquals(withField, find(fieldKnown, row).frequencyUncertaintyHertz(), uTol * withField,
+                            what + " with u(B) = 1e-6 T");
                     label(row, "lower_", c.lowerDominant(), wTol, what);
                     label(row, "upper_", c.upperDominant(), wTol, what);
                     if (tesla == 0) { // Clebsch-Gordan weights by sympy's CG
@@ -94,6 +103,11 @@ class ZeemanUncertaintyTest {
                 State upper = State.of(ground.n(), 1, twoJ);
                 List<HyperfineComponent> f = DATA.alkaliHyperfine().components(DATA, species, ground, upper);
                 List<ZeemanComponent> m = DATA.alkaliHyperfine().zeemanComponents(DATA, species, ground, upper, 0);
+                // a field uncertainty of 0 changes nothing, to the bit, at any field
+                for (double tesla : new double[] {0, 1e-4, 1}) {
+                    assertEquals(DATA.alkaliHyperfine().zeemanComponents(DATA, species, ground, upper, tesla),
+                            DATA.alkaliHyperfine().zeemanComponents(DATA, species, ground, upper, tesla, 0));
+                }
                 for (ZeemanComponent c : m) {
                     HyperfineComponent h = f.stream().filter(x -> x.twoFLower() == c.twoFLower()
                             && x.twoFUpper() == c.twoFUpper()).findFirst().orElseThrow();
@@ -111,6 +125,8 @@ class ZeemanUncertaintyTest {
         double eTol = Golden.absoluteTolerance(STATES, "");
         double uTol = Golden.tolerance(STATES, "uncertainty");
         double wTol = Golden.absoluteTolerance(STATES, "weight");
+        double sTol = Golden.tolerance(STATES, "field_slope");
+        double sFloor = Golden.absoluteTolerance(STATES, "field_slope_floor");
         List<Map<String, String>> rows = Golden.rows(STATES);
         assertEquals(128, rows.size());
         State p32 = State.of(6, 1, 3);
@@ -124,6 +140,8 @@ class ZeemanUncertaintyTest {
             String what = "Cs-133 6p3/2 at " + tesla + " T: " + s;
             assertEquals(Double.parseDouble(row.get("energy_hz")), s.energyHertz(), eTol, what);
             close(row, "energy_uncertainty_hz", s.energyUncertaintyHertz(), uTol, what);
+            double slope = Double.parseDouble(row.get("field_slope_hz_per_t"));
+            assertEquals(slope, s.fieldSlopeHertzPerTesla(), sTol * Math.abs(slope) + sFloor, what + " slope");
             assertEquals(row.get("m_j"), s.dominant().mJLabel(), what);
             assertEquals(row.get("m_i"), s.dominant().mILabel(), what);
             assertEquals(Double.parseDouble(row.get("weight")), s.dominant().weight(), wTol, what);

@@ -8,7 +8,8 @@ import java.util.OptionalDouble;
  * thread-safe.
  *
  * <p>NaN policy: {@code frequencyUncertaintyHertz} is NaN when not estimated (the centroid's, or an
- * uncertainty of A or B that a state's energy depends on, is not stated).
+ * uncertainty of A or B that a state's energy depends on, is not stated). {@code fieldSlopeHertzPerTesla} is
+ * always finite.
  *
  * @param twoFLower                 2 F of the lower state (zero-field label)
  * @param twoMFLower                2 m_F of the lower state
@@ -24,13 +25,20 @@ import java.util.OptionalDouble;
  *                                  two states' energy uncertainties (from the stated u(A), u(B) of the levels,
  *                                  first order by the Hellmann-Feynman theorem) in quadrature, as
  *                                  {@link HyperfineComponent#frequencyUncertaintyHertz} at zero field, which it
- *                                  equals there; NaN when not estimated
+ *                                  equals there; where a field uncertainty u(B) is given, also
+ *                                  |d nu/dB| u(B) in quadrature (first order; the same field error moves both
+ *                                  states, so the component's slope enters, not the states' own); NaN when not
+ *                                  estimated
  * @param lowerDominant             the lower state's largest |m_J m_I> component and its weight
  * @param upperDominant             the upper state's largest |m_J m_I> component and its weight
+ * @param fieldSlopeHertzPerTesla   the frequency's first derivative by the field at this field, d nu/dB, Hz per
+ *                                  tesla: the upper state's {@link ZeemanState#fieldSlopeHertzPerTesla} minus the
+ *                                  lower's (each exact by the Hellmann-Feynman theorem); positive when the
+ *                                  component moves up with the field, near 0 for a field-insensitive component
  */
 public record ZeemanComponent(int twoFLower, int twoMFLower, int twoFUpper, int twoMFUpper, int q,
         double frequencyHertz, double relativeStrength, double frequencyUncertaintyHertz,
-        UncoupledLabel lowerDominant, UncoupledLabel upperDominant) {
+        UncoupledLabel lowerDominant, UncoupledLabel upperDominant, double fieldSlopeHertzPerTesla) {
 
     /**
      * Checks the labels are there.
@@ -45,10 +53,15 @@ public record ZeemanComponent(int twoFLower, int twoMFLower, int twoFUpper, int 
      * @param frequencyUncertaintyHertz its standard uncertainty, Hz, or NaN when not estimated
      * @param lowerDominant             the lower state's largest |m_J m_I> component; not null
      * @param upperDominant             the upper state's largest |m_J m_I> component; not null
+     * @param fieldSlopeHertzPerTesla   d nu/dB, Hz per tesla; finite
      */
     public ZeemanComponent {
         Objects.requireNonNull(lowerDominant, "lowerDominant");
         Objects.requireNonNull(upperDominant, "upperDominant");
+        if (!Double.isFinite(fieldSlopeHertzPerTesla)) {
+            throw new IllegalArgumentException("a component's field slope must be finite (Hz per tesla), got "
+                    + fieldSlopeHertzPerTesla);
+        }
     }
 
     /** @return the frequency's standard uncertainty, Hz, or empty when not estimated */

@@ -39,6 +39,19 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * (m_e / m_p) / I from a nuclear moment (the bare nucleus': the atom's electrons shield it, and the
  * g_I measured in the atom differs by a few tenths of a per cent, a few Hz per unit of m_F at 1e-4 T).
  *
+ * <p><b>Field slopes and the field's uncertainty</b>: the Hamiltonian is H_0 + B_field M, with M the Zeeman
+ * operator per tesla (mu_B / h) (g_J J_z + g_I I_z), or for a whole term (mu_B / h) (L_z + g_S S_z + g_I I_z); so by
+ * the Hellmann-Feynman theorem (H. Hellmann, Einfuhrung in die Quantenchemie (1937); R. P. Feynman, Phys. Rev. 56,
+ * 340 (1939); common practice) each state's energy has the exact first derivative {@code dE/dB = <psi|M|psi>}
+ * ({@link ZeemanState#fieldSlopeHertzPerTesla}), and a component's frequency the difference of its two states'
+ * ({@link ZeemanComponent#fieldSlopeHertzPerTesla}). Given a standard uncertainty of the field u(B), the
+ * methods that take one add {@code |dE/dB| u(B)} to a state's energy uncertainty and {@code |d nu/dB| u(B)} to a
+ * component's frequency uncertainty, in quadrature: first order, so good while u(B) is small against the field
+ * over which the slope changes (about A / (mu_B / h): a few tenths of a tesla for the alkali ground levels, a few
+ * mT for their p3/2 levels; near a turning point, where the slope is 0, the second-order part
+ * (d^2 nu/dB^2) u(B)^2 / 2 that is left out may dominate).
+ * A u(B) of 0 changes nothing, to the bit.
+ *
  * <p><b>Levels and terms</b>: {@link #eigenstates} and {@link #components} diagonalise each level
  * on its own, which covers the hyperfine Paschen-Back regime but leaves out the field's mixing of
  * the two fine-structure levels of a term ({@link #fineStructureMixingHertz} gives its size);
@@ -61,6 +74,8 @@ public final class ZeemanStructure {
     private static final HyperfineConstants UNIT_A = new HyperfineConstants(1, 0, "the derivative by A");
     /** A = 0, B = 1 Hz: {@link #hamiltonian} with it (and no field) is dH/dB. */
     private static final HyperfineConstants UNIT_B = new HyperfineConstants(0, 1, "the derivative by B");
+    /** A = B = 0: {@link #hamiltonian} with it at 1 T is the Zeeman operator per tesla, dH/dB_field. */
+    private static final HyperfineConstants NO_HYPERFINE = new HyperfineConstants(0, 0, "the derivative by the field");
 
     private ZeemanStructure() {
     }
@@ -205,7 +220,8 @@ public final class ZeemanStructure {
      * covariance; GUM, JCGM 100:2008, eq. 10, from memory). At zero field the derivatives are the Casimir
      * factors, so u(E) is {@link HyperfineStructure#shiftUncertaintyHertz}. A constant whose derivative is 0
      * (below 1e-12: B of a level without a quadrupole term, or of an F whose Casimir factor of B is 0) does
-     * not enter. The g factors and the field are taken as exact.
+     * not enter. The g factors and the field are taken as exact (for the field's uncertainty see
+     * {@link #eigenstates(int, int, HyperfineConstants, double, double, double, double)}).
      *
      * @param twoI       2 I, 0 to 40
      * @param twoJ       2 J, 1 to 40
@@ -214,14 +230,34 @@ public final class ZeemanStructure {
      * @param gI         g_I in units of mu_B
      * @param fieldTesla the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
      * @return all (2I+1)(2J+1) eigenstates, by m_F ascending, then energy ascending, each with its energy's
-     *         standard uncertainty (NaN when an uncertainty of A or B it depends on is not stated) and its
-     *         largest |m_J m_I> component
+     *         standard uncertainty (NaN when an uncertainty of A or B it depends on is not stated), its
+     *         largest |m_J m_I> component and its slope dE/dB (Hz per tesla)
      */
     public static List<ZeemanState> eigenstates(int twoI, int twoJ, HyperfineConstants constants, double gJ,
             double gI, double fieldTesla) {
+        return eigenstates(twoI, twoJ, constants, gJ, gI, fieldTesla, 0);
+    }
+
+    /**
+     * {@link #eigenstates(int, int, HyperfineConstants, double, double, double)} with the field's standard
+     * uncertainty too: each state's energy uncertainty takes {@code |dE/dB| u(B)} in quadrature besides the
+     * parts of A and B (first order; see the class comment). A u(B) of 0 gives the same states, to the bit.
+     *
+     * @param twoI                  2 I, 0 to 40
+     * @param twoJ                  2 J, 1 to 40
+     * @param constants             A and B of the level, with their uncertainties where stated
+     * @param gJ                    its g_J
+     * @param gI                    g_I in units of mu_B
+     * @param fieldTesla            the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
+     * @param fieldUncertaintyTesla the field's standard uncertainty, tesla; finite, not negative
+     * @return all (2I+1)(2J+1) eigenstates, by m_F ascending, then energy ascending
+     */
+    public static List<ZeemanState> eigenstates(int twoI, int twoJ, HyperfineConstants constants, double gJ,
+            double gI, double fieldTesla, double fieldUncertaintyTesla) {
         Objects.requireNonNull(constants, "constants");
         HyperfineStructure.checkSpins(twoI, twoJ);
         checkField(fieldTesla);
+        checkFieldUncertainty(fieldUncertaintyTesla);
         if (!Double.isFinite(gJ) || !Double.isFinite(gI)) {
             throw new IllegalArgumentException("g factors must be finite, got g_J = " + gJ + ", g_I = " + gI);
         }
@@ -230,6 +266,7 @@ public final class ZeemanStructure {
         double[][] h = hamiltonian(twoI, twoJ, constants, gJ, gI, fieldTesla);
         double[][] perA = hamiltonian(twoI, twoJ, UNIT_A, 0, 0, 0);
         double[][] perB = hasQuadrupole(twoI, twoJ) ? hamiltonian(twoI, twoJ, UNIT_B, 0, 0, 0) : null;
+        double[][] perTesla = hamiltonian(twoI, twoJ, NO_HYPERFINE, gJ, gI, 1);
         List<ZeemanState> out = new ArrayList<>();
         for (int twoMF = -(twoI + twoJ); twoMF <= twoI + twoJ; twoMF += 2) {
             int mf = twoMF;
@@ -255,8 +292,10 @@ public final class ZeemanStructure {
                 if (perB != null) {
                     u = quadrature(u, expectation(perB, full, 0), constants.bUncertaintyHertz());
                 }
-                out.add(new ZeemanState(twoMF, fs.get(rank)[0], eigen[0][rank], full, u,
-                        dominant(full, a -> twoJ, a -> twoMJ(a, nI, twoJ), a -> twoMI(a, nI, twoI))));
+                double slope = expectation(perTesla, full, 0);
+                out.add(new ZeemanState(twoMF, fs.get(rank)[0], eigen[0][rank], full,
+                        withField(u, slope, fieldUncertaintyTesla),
+                        dominant(full, a -> twoJ, a -> twoMJ(a, nI, twoJ), a -> twoMI(a, nI, twoI)), slope));
             }
         }
         return List.copyOf(out);
@@ -302,11 +341,40 @@ public final class ZeemanStructure {
      * @param centroidHertz            the line's hyperfine-free centroid frequency, Hz
      * @param centroidUncertaintyHertz its standard uncertainty, Hz; not negative, or NaN when not estimated
      * @param fieldTesla               the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
-     * @return every component whose share of the line strength exceeds 1e-12, by frequency
+     * @return every component whose share of the line strength exceeds 1e-12, by frequency, each with its slope
+     *         d nu/dB (Hz per tesla); the field taken as exact
      */
     public static List<ZeemanComponent> components(int twoI, int twoJLower, HyperfineConstants lower, double gJLower,
             int twoJUpper, HyperfineConstants upper, double gJUpper, double gI, double centroidHertz,
             double centroidUncertaintyHertz, double fieldTesla) {
+        return components(twoI, twoJLower, lower, gJLower, twoJUpper, upper, gJUpper, gI, centroidHertz,
+                centroidUncertaintyHertz, fieldTesla, 0);
+    }
+
+    /**
+     * {@link #components(int, int, HyperfineConstants, double, int, HyperfineConstants, double, double, double,
+     * double, double)} with the field's standard uncertainty too: each component's frequency uncertainty takes
+     * {@code |d nu/dB| u(B)} in quadrature (first order; one field error moves both states, so the component's
+     * slope enters). A u(B) of 0 gives the same components, to the bit.
+     *
+     * @param twoI                     2 I, 0 to 40
+     * @param twoJLower                2 J of the lower level
+     * @param lower                    its A and B, with their uncertainties where stated
+     * @param gJLower                  its g_J
+     * @param twoJUpper                2 J' of the upper level, |J - J'| &lt;= 1
+     * @param upper                    its A and B, with their uncertainties where stated
+     * @param gJUpper                  its g_J
+     * @param gI                       g_I in units of mu_B
+     * @param centroidHertz            the line's hyperfine-free centroid frequency, Hz
+     * @param centroidUncertaintyHertz its standard uncertainty, Hz; not negative, or NaN when not estimated
+     * @param fieldTesla               the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
+     * @param fieldUncertaintyTesla    the field's standard uncertainty, tesla; finite, not negative
+     * @return every component whose share of the line strength exceeds 1e-12, by frequency
+     */
+    public static List<ZeemanComponent> components(int twoI, int twoJLower, HyperfineConstants lower, double gJLower,
+            int twoJUpper, HyperfineConstants upper, double gJUpper, double gI, double centroidHertz,
+            double centroidUncertaintyHertz, double fieldTesla, double fieldUncertaintyTesla) {
+        checkFieldUncertainty(fieldUncertaintyTesla);
         if (Math.abs(twoJLower - twoJUpper) > 2 || !Double.isFinite(centroidHertz)) {
             throw new IllegalArgumentException("no dipole line from 2J = " + twoJLower + " to 2J' = " + twoJUpper
                     + " at centroid " + centroidHertz + " Hz");
@@ -341,11 +409,12 @@ public final class ZeemanStructure {
                 }
                 double share = amp * amp / (twoI + 1);
                 if (share > SHARE_FLOOR) {
-                    double uf = HyperfineStructure.componentUncertainty(centroidUncertaintyHertz,
-                            l.energyUncertaintyHertz(), u.energyUncertaintyHertz());
+                    double slope = u.fieldSlopeHertzPerTesla() - l.fieldSlopeHertzPerTesla();
+                    double uf = withField(HyperfineStructure.componentUncertainty(centroidUncertaintyHertz,
+                            l.energyUncertaintyHertz(), u.energyUncertaintyHertz()), slope, fieldUncertaintyTesla);
                     out.add(new ZeemanComponent(l.twoF(), l.twoMF(), u.twoF(), u.twoMF(), twoQ / 2,
                             centroidHertz + u.energyHertz() - l.energyHertz(), share, uf, l.dominant(),
-                            u.dominant()));
+                            u.dominant(), slope));
                 }
             }
         }
@@ -398,7 +467,7 @@ public final class ZeemanStructure {
      * {@link HyperfineStructure#components}' uncertainty there). Left out: the uncertainty of the
      * fine-structure splitting, which enters only through the field's mixing of the two J (the derivative of
      * a component by it is the weight of the other J level in the upper state, about 1e-6 for Rb at 1 T), and
-     * that of the g factors and the field.
+     * that of the g factors and the field (for the field's, see the overload with {@code fieldUncertaintyTesla}).
      *
      * @param twoI                     2 I, 0 to 40
      * @param lower                    A (and B) of the s1/2 level, with uncertainties where stated
@@ -411,12 +480,43 @@ public final class ZeemanStructure {
      * @param centroidHertz            that line's hyperfine-free centroid frequency, Hz
      * @param centroidUncertaintyHertz its standard uncertainty, Hz; not negative, or NaN when not estimated
      * @param fieldTesla               the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
-     * @return every component of the line whose share exceeds 1e-12, by frequency
+     * @return every component of the line whose share exceeds 1e-12, by frequency, each with its slope d nu/dB
+     *         (Hz per tesla; the upper state's by the Hellmann-Feynman theorem on the term's Zeeman operator
+     *         (mu_B / h) (L_z + g_S S_z + g_I I_z)); the field taken as exact
      */
     public static List<ZeemanComponent> termComponents(int twoI, HyperfineConstants lower, int lUpper,
             HyperfineConstants upperLow, HyperfineConstants upperHigh, double fineStructureHertz, int twoJUpper,
             double gI, double centroidHertz, double centroidUncertaintyHertz, double fieldTesla) {
+        return termComponents(twoI, lower, lUpper, upperLow, upperHigh, fineStructureHertz, twoJUpper, gI,
+                centroidHertz, centroidUncertaintyHertz, fieldTesla, 0);
+    }
+
+    /**
+     * {@link #termComponents(int, HyperfineConstants, int, HyperfineConstants, HyperfineConstants, double, int,
+     * double, double, double, double)} with the field's standard uncertainty too: each component's frequency
+     * uncertainty takes {@code |d nu/dB| u(B)} in quadrature (first order; one field error moves both states, so
+     * the component's slope enters). A u(B) of 0 gives the same components, to the bit.
+     *
+     * @param twoI                     2 I, 0 to 40
+     * @param lower                    A (and B) of the s1/2 level, with uncertainties where stated
+     * @param lUpper                   the upper term's l: 1
+     * @param upperLow                 A and B of its J = l - 1/2 level, with uncertainties where stated
+     * @param upperHigh                A and B of its J = l + 1/2 level, with uncertainties where stated
+     * @param fineStructureHertz       E(l + 1/2) - E(l - 1/2), Hz; finite (negative for an inverted term)
+     * @param twoJUpper                which line: 2J of its upper level, 1 (D1) or 3 (D2)
+     * @param gI                       g_I in units of mu_B
+     * @param centroidHertz            that line's hyperfine-free centroid frequency, Hz
+     * @param centroidUncertaintyHertz its standard uncertainty, Hz; not negative, or NaN when not estimated
+     * @param fieldTesla               the field, tesla; 0 to {@link #MAX_FIELD_TESLA}
+     * @param fieldUncertaintyTesla    the field's standard uncertainty, tesla; finite, not negative
+     * @return every component of the line whose share exceeds 1e-12, by frequency
+     */
+    public static List<ZeemanComponent> termComponents(int twoI, HyperfineConstants lower, int lUpper,
+            HyperfineConstants upperLow, HyperfineConstants upperHigh, double fineStructureHertz, int twoJUpper,
+            double gI, double centroidHertz, double centroidUncertaintyHertz, double fieldTesla,
+            double fieldUncertaintyTesla) {
         HyperfineStructure.checkCentroidUncertainty(centroidUncertaintyHertz);
+        checkFieldUncertainty(fieldUncertaintyTesla);
         Objects.requireNonNull(lower, "lower");
         Objects.requireNonNull(upperLow, "upperLow");
         Objects.requireNonNull(upperHigh, "upperHigh");
@@ -458,10 +558,11 @@ public final class ZeemanStructure {
                 double strength = amp * amp;
                 total += strength;
                 if (term.twoJ(u) == twoJUpper) {
-                    double uf = HyperfineStructure.componentUncertainty(centroidUncertaintyHertz,
-                            l.energyUncertaintyHertz(), term.energyUncertaintyHertz(u));
+                    double slope = term.fieldSlopeHertzPerTesla(u) - l.fieldSlopeHertzPerTesla();
+                    double uf = withField(HyperfineStructure.componentUncertainty(centroidUncertaintyHertz,
+                            l.energyUncertaintyHertz(), term.energyUncertaintyHertz(u)), slope, fieldUncertaintyTesla);
                     found.add(new double[] {l.twoF(), l.twoMF(), term.twoF(u), term.twoMF(u), twoQ / 2.0,
-                        lowCentroid + term.energyHertz(u) - l.energyHertz(), strength, uf});
+                        lowCentroid + term.energyHertz(u) - l.energyHertz(), strength, uf, slope});
                     labels.add(new UncoupledLabel[] {l.dominant(), term.dominant(u)});
                 }
             }
@@ -471,7 +572,7 @@ public final class ZeemanStructure {
             double share = f[6] / (total * lineShare);
             if (share > SHARE_FLOOR) {
                 out.add(new ZeemanComponent((int) f[0], (int) f[1], (int) f[2], (int) f[3], (int) f[4], f[5], share,
-                        f[7], labels.get(k)[0], labels.get(k)[1]));
+                        f[7], labels.get(k)[0], labels.get(k)[1], f[8]));
             }
         }
         out.sort(Comparator.comparingDouble(ZeemanComponent::frequencyHertz));
@@ -493,6 +594,7 @@ public final class ZeemanStructure {
         private final int[] twoF;
         private final double[][] vectors;
         private final double[] energyUncertainty;
+        private final double[] fieldSlope;
         private final UncoupledLabel[] dominant;
 
         Term(int twoI, int l, HyperfineConstants low, HyperfineConstants high, double fineStructure, double gI,
@@ -521,6 +623,8 @@ public final class ZeemanStructure {
             }
             double mub = bohrMagnetonHertzPerTesla() * resolved(tesla);
             double gS = electronSpinG();
+            // the Zeeman operator per tesla, dH/dB_field, for the states' slopes (Hellmann-Feynman)
+            double[][] perTesla = new double[n][n];
             for (int a = 0; a < n; a++) {
                 for (int b = 0; b < n; b++) {
                     if (twoMJOf[a] != twoMJOf[b] || twoMIOf[a] != twoMIOf[b]) {
@@ -536,8 +640,10 @@ public final class ZeemanStructure {
                                 * clebsch(l, twoMl, twoMs, twoJOf[b], twoMJOf[b]) * (twoMl / 2.0 + gS * twoMs / 2.0);
                     }
                     h[a][b] += mub * orbitalAndSpin;
+                    perTesla[a][b] = bohrMagnetonHertzPerTesla() * orbitalAndSpin;
                     if (a == b) {
                         h[a][a] += mub * gI * twoMIOf[a] / 2.0;
+                        perTesla[a][a] += bohrMagnetonHertzPerTesla() * gI * twoMIOf[a] / 2.0;
                     }
                 }
             }
@@ -547,6 +653,7 @@ public final class ZeemanStructure {
             twoF = new int[n];
             vectors = new double[n][];
             energyUncertainty = new double[n];
+            fieldSlope = new double[n];
             dominant = new UncoupledLabel[n];
             // the derivatives of H by A and B of each J level (Hellmann-Feynman), as matrices of the J block
             double[][][] perX = new double[4][][];
@@ -585,6 +692,7 @@ public final class ZeemanStructure {
                         }
                     }
                     energyUncertainty[k] = u;
+                    fieldSlope[k] = expectation(perTesla, vectors[k], 0);
                     dominant[k] = ZeemanStructure.dominant(vectors[k], a -> twoJOf[a], a -> twoMJOf[a],
                             a -> twoMIOf[a]);
                     k++;
@@ -614,6 +722,11 @@ public final class ZeemanStructure {
 
         double energyUncertaintyHertz(int u) {
             return energyUncertainty[u];
+        }
+
+        /** dE/dB of eigenstate u, Hz per tesla: {@code <psi|M|psi>} with the term's Zeeman operator per tesla. */
+        double fieldSlopeHertzPerTesla(int u) {
+            return fieldSlope[u];
         }
 
         UncoupledLabel dominant(int u) {
@@ -731,6 +844,17 @@ public final class ZeemanStructure {
     }
 
     /**
+     * Adds the field's part {@code |slope| u(B)} to a standard uncertainty in quadrature; a u(B) of 0 returns it
+     * unchanged (to the bit), and a NaN (not estimated) stays NaN.
+     */
+    private static double withField(double soFar, double slopeHertzPerTesla, double fieldUncertaintyTesla) {
+        if (fieldUncertaintyTesla == 0) {
+            return soFar;
+        }
+        return Math.hypot(soFar, slopeHertzPerTesla * fieldUncertaintyTesla);
+    }
+
+    /**
      * The largest component of v and its weight: the first index whose weight is within
      * {@link UncoupledLabel#TIE} of the largest.
      */
@@ -798,7 +922,14 @@ public final class ZeemanStructure {
         return tesla < UNRESOLVED_FIELD_TESLA ? 0 : tesla;
     }
 
-        private static void checkField(double fieldTesla) {
+    private static void checkFieldUncertainty(double fieldUncertaintyTesla) {
+        if (!(fieldUncertaintyTesla >= 0) || fieldUncertaintyTesla == Double.POSITIVE_INFINITY) {
+            throw new IllegalArgumentException("the field's standard uncertainty must be finite and not negative, "
+                    + "tesla, got " + fieldUncertaintyTesla);
+        }
+    }
+
+    private static void checkField(double fieldTesla) {
         if (!(fieldTesla >= 0) || fieldTesla > MAX_FIELD_TESLA) {
             throw new IllegalArgumentException("magnetic field must be 0 to " + MAX_FIELD_TESLA + " T, got " + fieldTesla);
         }
