@@ -95,7 +95,7 @@ import org.ritzwerk.refdata.DataContext;
  * pixels off in about a third of the runs, and the identifier's re-pairing (at 4.5 and 5 pixels) or
  * the final fit's clipping (at 4 pixels, where the re-pairing, which allows three of the first
  * solution's standard uncertainties where those exceed the tolerance, pairs it again) leaves it out
- * ({@code aForeignPeakBeyondTheChecksReachIsLeftOutByTheFit}).
+ * ({@code aForeignPeakBeyondTheChecksReachIsLeftOutFurtherOn}).
  */
 class LoneEndPairTest {
 
@@ -209,7 +209,7 @@ class LoneEndPairTest {
      * later steps must leave it out, or the calibration refuse.
      */
     @Test
-    void aForeignPeakBeyondTheChecksReachIsLeftOutByTheFit() {
+    void aForeignPeakBeyondTheChecksReachIsLeftOutFurtherOn() {
         Scene fine = new Scene(neon, LampExposures.dispersion(535, 222, PIXELS, 0.4, 0.05), new double[] {NE_540},
                 false);
         for (double offset : new double[] {-4.5, 5}) {
