@@ -13,6 +13,7 @@ import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ConcurrentMap;
+import java.util.concurrent.atomic.AtomicInteger;
 import java.util.stream.Collectors;
 import org.ritzwerk.atom.Nucleus;
 import org.ritzwerk.atom.Species;
@@ -72,7 +73,8 @@ import org.ritzwerk.refdata.internal.RydbergData;
  *
  * <p><b>Make one context and share it.</b> Build a context once (at start-up, or per user file set)
  * and pass it to every call and thread that needs data; do not build one per call. What a context
- * has read (its nuclear data, each data set, each alkali atom it assembled) is kept in it, so a
+ * has read (its nuclear data, each data set, each alkali atom it assembled, the n*^-3 law's error
+ * figures of the Rydberg hyperfine constants) is kept in it, so a
  * new context repeats that work. What its first use costs: listing the data sets reads only the
  * built-in files' headers; a set's rows are read when the set is first asked for. The built-in
  * files are read at most once per JVM and the sets shared by every built-in context (they cannot
@@ -97,6 +99,9 @@ public final class DataContext {
     private volatile NuclearData nuclear;
     private volatile List<Species> alkaliSpecies;
     private final ConcurrentMap<Species, AlkaliAtom> alkalis = new ConcurrentHashMap<>();
+    /** The n*^-3 law's figures of each Rydberg hyperfine data set asked with this context (by identity). */
+    private final ConcurrentMap<RydbergHyperfine, RydbergHyperfine.Law> scalingLaws = new ConcurrentHashMap<>();
+    private final AtomicInteger scalingLawsWorkedOut = new AtomicInteger();
 
     private DataContext(DataRegistry registry) {
         this.registry = Objects.requireNonNull(registry, "registry");
@@ -397,6 +402,29 @@ public final class DataContext {
      */
     public RydbergHyperfine rydbergHyperfine() {
         return RydbergHyperfine.builtIn();
+    }
+
+    /**
+     * The n*^-3 law's error figures of a Rydberg hyperfine data set in this context ({@link
+     * RydbergHyperfine#scalingLawError} and each series' drift per n): worked out on first use, from every series'
+     * measured levels, and kept, once however many threads and levels ask, since they depend only on this context's
+     * data. Kept per data set object (in practice one: {@link #rydbergHyperfine()}'s); a data set is never equal to
+     * another ({@code RydbergHyperfine} keeps identity equality).
+     *
+     * @throws IllegalStateException when no series has two measured levels (nothing is kept then)
+     */
+    RydbergHyperfine.Law scalingLaw(RydbergHyperfine data) {
+        // workOutLaw asks this context for atoms and measured constants, never for a scaling law, so computing
+        // inside computeIfAbsent is safe; each data set's figures are worked out once.
+        return scalingLaws.computeIfAbsent(data, d -> {
+            scalingLawsWorkedOut.incrementAndGet();
+            return d.workOutLaw(this);
+        });
+    }
+
+    /** @return how many times {@link #scalingLaw} has worked the figures out in this context (for tests) */
+    int scalingLawsWorkedOut() {
+        return scalingLawsWorkedOut.get();
     }
 
     /**

@@ -3,7 +3,10 @@ package org.ritzwerk.refdata;
 import java.io.InputStream;
 import java.math.BigDecimal;
 import java.util.ArrayList;
+import java.util.Collections;
+import java.util.IdentityHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
 import org.ritzwerk.atom.Species;
@@ -28,7 +31,9 @@ import org.ritzwerk.refdata.internal.BuiltInCsv;
  * {@code rydberg/rydberg-hyperfine.csv} (format {@value #FORMAT} 1), each row with its source and
  * how it was checked. The law's own error is carried in the scaled constants' uncertainties, estimated from
  * the drift of A n*^3 between the measured levels of each series in the project's data ({@link
- * #scalingLawError}, {@link #scalingLawRelativeUncertainty}). Immutable and thread-safe.
+ * #scalingLawError}, {@link #scalingLawRelativeUncertainty}); those figures depend only on a context's data, so
+ * each {@link DataContext} works them out once for this data and keeps them, however many levels ask
+ * ({@link #recomputingLaw()} is the plain method, for comparisons). Immutable and thread-safe.
  */
 public final class RydbergHyperfine {
 
@@ -74,9 +79,24 @@ public final class RydbergHyperfine {
     }
 
     private final List<Series> series;
+    /** Whether the law's figures come from the context's memo ({@link DataContext#scalingLaw}) or anew per call. */
+    private final boolean memo;
 
-    private RydbergHyperfine(List<Series> series) {
+    private RydbergHyperfine(List<Series> series, boolean memo) {
         this.series = series;
+        this.memo = memo;
+    }
+
+    /**
+     * The plain method, for comparisons (tests and the {@code RydbergHyperfineBenchmark} baseline): the same data,
+     * working out the n*^-3 law's error ({@link #scalingLawError}, and the series' {@link #driftPerN}) anew for every
+     * level asked, from every series' measured levels, instead of once per data context. The same figures, bit for
+     * bit.
+     *
+     * @return this data recomputing the law's error on every call; a new object (the contexts keep nothing for it)
+     */
+    public RydbergHyperfine recomputingLaw() {
+        return new RydbergHyperfine(series, false);
     }
 
     /** @return the built-in data, read on first use (thread-safe) */
@@ -176,7 +196,7 @@ public final class RydbergHyperfine {
                 throw BuiltInCsv.bad(name, row.number(), e.getMessage(), row.raw());
             }
         }
-        return new RydbergHyperfine(List.copyOf(out));
+        return new RydbergHyperfine(List.copyOf(out), true);
     }
 
     /** A stated standard uncertainty: a number, not negative. */
@@ -319,13 +339,61 @@ public final class RydbergHyperfine {
     /**
      * The n*^-3 law's error as every series' measured levels in the project's data show it: the largest drift of
      * A n*^3 per n and the largest change of A n*^3 between two measured levels of one series (see
-     * {@link #constants} for how they are used).
+     * {@link #constants} for how they are used). Worked out once per context and kept there (the same object on
+     * every call with that context), except by {@link #recomputingLaw()}'s data.
      *
      * @param context the data context
      * @return the two figures and the pair of levels that gives the drift
      * @throws IllegalStateException when no series has two measured levels (a file without them gives no basis)
      */
     public ScalingLawError scalingLawError(DataContext context) {
+        Objects.requireNonNull(context, "context");
+        return memo ? context.scalingLaw(this).error() : workOutScalingLawError(context);
+    }
+
+    /**
+     * The n*^-3 law's figures of this data in one context, worked out together once ({@link DataContext#scalingLaw}
+     * keeps them): {@link #scalingLawError} and each series' {@link #driftPerN}. Immutable.
+     */
+    static final class Law {
+
+        private final ScalingLawError error;
+        private final Map<Series, Optional<Double>> drifts;
+
+        private Law(ScalingLawError error, Map<Series, Optional<Double>> drifts) {
+            this.error = error;
+            this.drifts = drifts;
+        }
+
+        ScalingLawError error() {
+            return error;
+        }
+
+        /** @return {@link #driftPerN} of a row of the data this law was worked out for (by identity) */
+        Optional<Double> driftPerN(Series row) {
+            Optional<Double> drift = drifts.get(row);
+            if (drift == null) {
+                throw new IllegalArgumentException("not a row of the data this law was worked out for: " + row);
+            }
+            return drift;
+        }
+    }
+
+    /**
+     * Works out the law's figures of this data in a context: what {@link DataContext#scalingLaw} keeps.
+     *
+     * @throws IllegalStateException as {@link #scalingLawError} does
+     */
+    Law workOutLaw(DataContext context) {
+        ScalingLawError error = workOutScalingLawError(context);
+        Map<Series, Optional<Double>> drifts = new IdentityHashMap<>();
+        for (Series row : series) {
+            drifts.put(row, driftPerN(context, row));
+        }
+        return new Law(error, Collections.unmodifiableMap(drifts));
+    }
+
+    private ScalingLawError workOutScalingLawError(DataContext context) {
         double drift = -1;
         double cap = -1;
         String pair = "";
@@ -381,9 +449,17 @@ public final class RydbergHyperfine {
         if (distance == 0) {
             return 0;
         }
-        ScalingLawError law = scalingLawError(context);
-        double drift = driftPerN(context, row).orElse(law.driftPerN());
-        return Math.min(drift * distance, law.cap());
+        ScalingLawError law;
+        Optional<Double> own;
+        if (memo) {
+            Law kept = context.scalingLaw(this);
+            law = kept.error();
+            own = kept.driftPerN(row);
+        } else {
+            law = workOutScalingLawError(context);
+            own = driftPerN(context, row);
+        }
+        return Math.min(own.orElse(law.driftPerN()) * distance, law.cap());
     }
 
     /** A series' row as it serves one level: the row, and the ratios for a borrowed isotope (1 for its own). */
