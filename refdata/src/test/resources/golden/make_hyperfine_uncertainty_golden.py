@@ -29,10 +29,13 @@ Independent of the project's code:
   * the n*^-3 law's own error (RydbergHyperfine.scalingLawRelativeUncertainty), added to u_A and u_B in
     quadrature as a relative uncertainty r = min(d |n - n_m|, cap) of A and of B: X = A n*^3 at two measured
     levels of a series, d = |ln(X_b / X_a)| / |n_b - n_a|, n_m the nearest measured n (for a published scaled
-    constant the nearest end of the n range it was fitted over, 41-55 for Cs nP); cap, and d of a series with
-    one measured level (Rb nD5/2), the Cs 6d5/2 - 7d5/2 figure |ln(X_6d / X_7d)| (the largest of the project's
-    pairs since the 6d constants were added, which RydbergHyperfineScalingLawTest checks over every series;
-    before, Cs 6s - 7s, also printed); Rb nS: 5s and 7s; Cs nP3/2: 6p3/2 and 7p3/2; Cs nD3/2: 6d3/2 and 7d3/2;
+    constant the nearest end of the n range it was fitted over, 41-55 for Cs nP); cap the largest |ln(X_b / X_a)|
+    over the series of the same l (RydbergHyperfine.seriesLaw), and d of a series with one measured level
+    (Rb nD5/2) the largest d of that l: for s the Cs 6s - 7s figure, for d the Cs 6d5/2 - 7d5/2 figure (the
+    largest of the project's pairs since the 6d constants were added; for one n apart d and cap are the same
+    number), which RydbergHyperfineScalingLawTest checks over every series; a published scaled constant counts
+    as measured at the lowest n of its range (Cs nP3/2 at 41, X = 0.718 GHz); Rb nS: 5s and 7s; Cs nP3/2:
+    6p3/2 and 7p3/2; Cs nD3/2: 6d3/2 and 7d3/2;
     measured levels' n* = sqrt(R_M / (limit - E)), E = 0 for a ground level, or, for a level the level list
     lacks (Cs 6d3/2, 7d3/2, 7d5/2), n - delta(n) of the series' modified Rydberg-Ritz formula with every
     coefficient of quantum-defects-cs-133.csv, as the engine takes it there.
@@ -168,8 +171,8 @@ RB_S_DRIFT = abs(mpmath.log(x_measured(M("3417.34130545215"), RB_LIMIT, RB_RM, M
                             / x_measured(M("319.759"), RB_LIMIT, RB_RM, M("26311.436")))) / 2
 
 
-def law(drift, distance):
-    return min(drift * distance, CS_LAW_CAP)
+def law(drift, distance, cap):
+    return min(drift * distance, cap)
 
 
 def with_law(a, u_a, r):
@@ -178,11 +181,11 @@ def with_law(a, u_a, r):
 
 scale_60s = (n_star_measured(RB_LIMIT, RB_RM, M("26311.436")) / n_star_formula(RB_S[0], 60)) ** 3
 a_60s = M("319.759") * MHZ_HZ * scale_60s
-RB["60s1/2"] = (1, a_60s, with_law(a_60s, M("0.028") * MHZ_HZ * scale_60s, law(RB_S_DRIFT, 60 - 7)), M(0), M(0))
+RB["60s1/2"] = (1, a_60s, with_law(a_60s, M("0.028") * MHZ_HZ * scale_60s, law(RB_S_DRIFT, 60 - 7, CS_S_CHANGE)), M(0), M(0))
 scale_60d = (n_star_measured(RB_LIMIT, RB_RM, M("30281.619")) / n_star_formula(RB_D52[0], 60)) ** 3
 # no B given for the series: the quadrupole term and its uncertainty are left out (B = 0, u_B = 0)
 a_60d = M("-2.2") * MHZ_HZ * scale_60d
-RB["60d5/2"] = (5, a_60d, with_law(a_60d, M("0.5") * MHZ_HZ * scale_60d, law(CS_LAW_CAP, 60 - 7)), M(0), M(0))
+RB["60d5/2"] = (5, a_60d, with_law(a_60d, M("0.5") * MHZ_HZ * scale_60d, law(CS_LAW_CAP, 60 - 7, CS_LAW_CAP)), M(0), M(0))
 CS = {
     "6s1/2": (1, M("2298.1579425") * MHZ_HZ, M(0), M(0), M(0)),
     "6p3/2": (3, M("50.28827") * MHZ_HZ, M("0.00023") * MHZ_HZ, M("-0.4934") * MHZ_HZ, M("0.0017") * MHZ_HZ),
@@ -190,7 +193,12 @@ CS = {
 scale_40p = n_star_formula(CS_P32[0], 40) ** -3
 CS_P32_DRIFT = abs(mpmath.log(x_measured(M("50.28827"), CS_LIMIT, CS_RM, M("351725718.4744") * MHZ)
                               / x_measured(M("16.605"), CS_LIMIT, CS_RM, M("21946.397"))))
-r_40p = law(CS_P32_DRIFT, 41 - 40)
+# the p cap (at least Cs nP3/2's change from 6p3/2 to its scaled constant, taken at n = 41) does not bind one n
+# from the fitted range
+CS_P32_SCALED_CHANGE = abs(mpmath.log(M("718") / x_measured(M("50.28827"), CS_LIMIT, CS_RM,
+                                                             M("351725718.4744") * MHZ)))
+assert CS_P32_SCALED_CHANGE > CS_P32_DRIFT
+r_40p = law(CS_P32_DRIFT, 41 - 40, CS_P32_SCALED_CHANGE)
 a_40p = M("0.718") * 10 ** 9 * scale_40p
 b_40p = M("-0.084") * 10 ** 9 * scale_40p
 CS["40p3/2"] = (3, a_40p, with_law(a_40p, M("0.027") * 10 ** 9 * scale_40p, r_40p),

@@ -274,22 +274,25 @@ public final class RydbergHyperfine {
      * How far the n*^-3 law is off, as the measured levels in the project's data show it.
      *
      * @param driftPerN the largest |ln(X_b / X_a)| / |n_b - n_a| over every pair of measured levels of one series
-     *                  (X = A n*^3), the figure a series with only one measured level takes
+     *                  (X = A n*^3), the figure a series with only one measured level takes when no series of its l
+     *                  has two ({@link #seriesLaw})
      * @param cap       the largest |ln(X_b / X_a)| over those pairs: the largest change of A n*^3 the data show
-     *                  along any series, the most the law's relative error is taken to reach
+     *                  along any series (each series takes its own l's, {@link #seriesLaw})
      * @param pair      the two levels that give the largest drift per n, e.g. {@code Cs-133 I 6s 2S1/2 - 7s 2S1/2}
      */
     public record ScalingLawError(double driftPerN, double cap, String pair) {
     }
 
     /**
-     * The measured levels of one row's series: the row's own reference level (kind {@code level}) and every level
-     * of the row's isotope with the same l and j in {@code hyperfine-constants.csv} ({@link AlkaliHyperfine}), by
-     * rising n (a level in both counts once, the row's).
+     * The measured levels of one row's series: the row's own reference level (kind {@code level}), or for kind
+     * {@code scaled} its published constant taken as measured at the lowest n of the range it was fitted over
+     * (A n*^3 there is the constant itself: the range's levels are what it was measured on), and every level of the
+     * row's isotope with the same l and j in {@code hyperfine-constants.csv} ({@link AlkaliHyperfine}), by rising n
+     * (a level in both counts once, the row's).
      *
      * @param context the data context (n* from the isotope's levels and limit; the measured constants)
      * @param row     a row of this file
-     * @return its measured levels; one or more for kind {@code level}, possibly none for kind {@code scaled}
+     * @return its measured levels; one or more
      */
     public List<MeasuredLevel> measuredLevels(DataContext context, Series row) {
         Objects.requireNonNull(context, "context");
@@ -303,6 +306,12 @@ public final class RydbergHyperfine {
         if (row.kind().equals("level")) {
             State ref = State.of(row.referenceN(), row.l(), row.twoJ());
             out.put(row.referenceN(), point(atom, ref, row.aHertz(), "rydberg-hyperfine.csv"));
+        } else {
+            State from = State.of(row.measuredFromN(), row.l(), row.twoJ());
+            double nStar = atom.level(from).effectiveN();
+            out.put(row.measuredFromN(), new MeasuredLevel(from, row.aHertz() / (nStar * nStar * nStar), nStar,
+                    row.aHertz(), "rydberg-hyperfine.csv (scaled constant fitted over n = " + row.measuredFromN()
+                    + "-" + row.measuredToN() + ")"));
         }
         return List.copyOf(out.values());
     }
@@ -352,45 +361,95 @@ public final class RydbergHyperfine {
     }
 
     /**
+     * The figures one series' scaled constants take ({@link #scalingLawRelativeUncertainty}).
+     *
+     * @param driftPerN the series' own {@link #driftPerN}; for a series with one measured level the largest drift
+     *                  per n of the series of the same l with two or more (of any isotope), or of any series when
+     *                  no series of that l has two
+     * @param cap       the largest change of A n*^3 between two measured levels of one series of the same l (of any
+     *                  isotope), or of any series when no series of that l has two measured levels
+     */
+    public record SeriesLaw(double driftPerN, double cap) {
+    }
+
+    /**
+     * @param context the data context
+     * @param row     a row of this file
+     * @return the drift and cap its scaled constants take (kept per context, as {@link #scalingLawError})
+     * @throws IllegalStateException as {@link #scalingLawError} does
+     */
+    public SeriesLaw seriesLaw(DataContext context, Series row) {
+        Objects.requireNonNull(context, "context");
+        return (memo ? context.scalingLaw(this) : workOutLaw(context)).of(row);
+    }
+
+    /**
      * The n*^-3 law's figures of this data in one context, worked out together once ({@link DataContext#scalingLaw}
-     * keeps them): {@link #scalingLawError} and each series' {@link #driftPerN}. Immutable.
+     * keeps them): {@link #scalingLawError} and each series' {@link #seriesLaw}. Immutable.
      */
     static final class Law {
 
         private final ScalingLawError error;
-        private final Map<Series, Optional<Double>> drifts;
+        private final Map<Series, SeriesLaw> series;
 
-        private Law(ScalingLawError error, Map<Series, Optional<Double>> drifts) {
+        private Law(ScalingLawError error, Map<Series, SeriesLaw> series) {
             this.error = error;
-            this.drifts = drifts;
+            this.series = series;
         }
 
         ScalingLawError error() {
             return error;
         }
 
-        /** @return {@link #driftPerN} of a row of the data this law was worked out for (by identity) */
-        Optional<Double> driftPerN(Series row) {
-            Optional<Double> drift = drifts.get(row);
-            if (drift == null) {
+        /** @return the figures of a row of the data this law was worked out for (by identity) */
+        SeriesLaw of(Series row) {
+            SeriesLaw law = series.get(row);
+            if (law == null) {
                 throw new IllegalArgumentException("not a row of the data this law was worked out for: " + row);
             }
-            return drift;
+            return law;
         }
     }
 
     /**
-     * Works out the law's figures of this data in a context: what {@link DataContext#scalingLaw} keeps.
+     * Works out the law's figures of this data in a context: what {@link DataContext#scalingLaw} keeps. The cap,
+     * and the drift of a series with one measured level, are taken over the series of the same l: how far A n*^3
+     * strays from constant at low n depends on how deep the valence orbital reaches into the core (s and p far,
+     * d less but its A is turned by core polarisation, Cs nd5/2 changing sign below the Rydberg range; common
+     * practice), so a d series' change does not stand for an s series' or the other way round.
      *
      * @throws IllegalStateException as {@link #scalingLawError} does
      */
     Law workOutLaw(DataContext context) {
         ScalingLawError error = workOutScalingLawError(context);
         Map<Series, Optional<Double>> drifts = new IdentityHashMap<>();
+        Map<Integer, Double> driftOfL = new java.util.HashMap<>();
+        Map<Integer, Double> capOfL = new java.util.HashMap<>();
         for (Series row : series) {
-            drifts.put(row, driftPerN(context, row));
+            Optional<Double> drift = driftPerN(context, row);
+            drifts.put(row, drift);
+            if (drift.isPresent()) {
+                driftOfL.merge(row.l(), drift.get(), Math::max);
+                capOfL.merge(row.l(), largestChange(measuredLevels(context, row)), Math::max);
+            }
         }
-        return new Law(error, Collections.unmodifiableMap(drifts));
+        Map<Series, SeriesLaw> out = new IdentityHashMap<>();
+        for (Series row : series) {
+            double drift = drifts.get(row).orElse(driftOfL.getOrDefault(row.l(), error.driftPerN()));
+            out.put(row, new SeriesLaw(drift, capOfL.getOrDefault(row.l(), error.cap())));
+        }
+        return new Law(error, Collections.unmodifiableMap(out));
+    }
+
+    /** @return the largest |ln(X_b / X_a)| over every pair of the levels */
+    private static double largestChange(List<MeasuredLevel> levels) {
+        double max = 0;
+        for (int i = 0; i < levels.size(); i++) {
+            for (int k = i + 1; k < levels.size(); k++) {
+                max = Math.max(max, logRatio(levels.get(i), levels.get(k)));
+            }
+        }
+        return max;
     }
 
     private ScalingLawError workOutScalingLawError(DataContext context) {
@@ -423,10 +482,10 @@ public final class RydbergHyperfine {
     /**
      * The relative standard uncertainty the n*^-3 law itself adds to one level's scaled A and B: {@code
      * min(d |n - n_m|, cap)}, d the drift of A n*^3 per n of the series' own measured levels ({@link #driftPerN};
-     * for a series with one measured level the largest drift per n of any series, {@link #scalingLawError}), n_m
-     * the nearest n the series' constant was measured at (the reference level; for a published scaled constant the
-     * nearest end of the range it was fitted over, 0 inside it), cap the largest change of A n*^3 along any series
-     * in the data. Zero at the measured level itself.
+     * for a series with one measured level the largest drift per n of the series of the same l), n_m the nearest n
+     * the series' constant was measured at (the reference level; for a published scaled constant the nearest end of
+     * the range it was fitted over, 0 inside it), cap the largest change of A n*^3 along any series of the same l in
+     * the data ({@link #seriesLaw}). Zero at the measured level itself.
      *
      * @param context the data context
      * @param species an isotope
@@ -449,17 +508,8 @@ public final class RydbergHyperfine {
         if (distance == 0) {
             return 0;
         }
-        ScalingLawError law;
-        Optional<Double> own;
-        if (memo) {
-            Law kept = context.scalingLaw(this);
-            law = kept.error();
-            own = kept.driftPerN(row);
-        } else {
-            law = workOutScalingLawError(context);
-            own = driftPerN(context, row);
-        }
-        return Math.min(own.orElse(law.driftPerN()) * distance, law.cap());
+        SeriesLaw law = seriesLaw(context, row);
+        return Math.min(law.driftPerN() * distance, law.cap());
     }
 
     /** A series' row as it serves one level: the row, and the ratios for a borrowed isotope (1 for its own). */

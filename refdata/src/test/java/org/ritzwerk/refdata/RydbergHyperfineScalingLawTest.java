@@ -3,6 +3,7 @@ package org.ritzwerk.refdata;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.ritzwerk.atom.Species;
 import org.ritzwerk.atom.State;
@@ -57,11 +58,48 @@ class RydbergHyperfineScalingLawTest {
         // Li-7 2s: A = 401.7520433 MHz at n* = 1.588473, A n*^3 = 1610.26 MHz; 3s: A = 93.095 MHz at n* = 2.596087,
         // A n*^3 = 1628.86 MHz; ln(1628.86 / 1610.26) = 0.01148 per n (hand, with the project's n*)
         assertEquals(0.011483, DATA.driftPerN(CONTEXT, row(LI7, 0, 1)).orElseThrow(), 2e-6);
-        // a series with one measured level has no drift of its own: it takes the largest
+        // a series with one measured level has no drift of its own: it takes the largest of its l (d: Cs 6d5/2 -
+        // 7d5/2)
         assertTrue(DATA.driftPerN(CONTEXT, row(RB87, 2, 5)).isEmpty());
         assertEquals(0.2576856110141, law(RB87, State.of(8, 2, 5)), 1e-9);
+        assertEquals(0.2576856110141, DATA.seriesLaw(CONTEXT, row(RB87, 2, 5)).driftPerN(), 1e-9);
         for (RydbergHyperfine.Series s : DATA.series()) {
             DATA.driftPerN(CONTEXT, s).ifPresent(d -> assertTrue(d <= law.driftPerN(), s.toString()));
+        }
+    }
+
+    /**
+     * Each series takes the cap of its own l: the largest change of A n*^3 between two measured levels of a series
+     * of that l. s: Cs 6s - 7s, 0.0995 (above; Rb 5s - 7s changes 0.0912); d: Cs 6d5/2 - 7d5/2, 0.2577. p: Cs
+     * nP3/2 from 7p3/2 (A n*^3 = 656.0 MHz, the file's check R) to its published scaled constant 0.718 GHz (R. Song
+     * et al., arXiv:2410.09520, read in the abstract), taken as measured at n = 41: ln(718 / 656.0) = 0.0903 (hand),
+     * the largest p change; Cs 6p3/2 - 7p3/2 changes only 0.0097. Before, one cap, the largest of all, served every
+     * series, so the Cs 6d constants raised the s and p series' law error from 9.95 % to 25.8 %.
+     */
+    @Test
+    void eachSeriesTakesTheCapOfItsOwnL() {
+        assertEquals(0.0995148083737, DATA.seriesLaw(CONTEXT, row(RB87, 0, 1)).cap(), 1e-9);
+        assertEquals(0.0995148083737, DATA.seriesLaw(CONTEXT, row(LI7, 0, 1)).cap(), 1e-9);
+        assertEquals(0.0903, DATA.seriesLaw(CONTEXT, row(CS, 1, 3)).cap(), 1e-3);
+        assertEquals(0.0903, DATA.seriesLaw(CONTEXT, row(RB87, 1, 1)).cap(), 1e-3);
+        assertEquals(0.2576856110141, DATA.seriesLaw(CONTEXT, row(CS, 2, 3)).cap(), 1e-9);
+        assertEquals(0.2576856110141, DATA.seriesLaw(CONTEXT, row(RB87, 2, 5)).cap(), 1e-9);
+        // the scaled constant is a measured point of its series at n = 41
+        List<RydbergHyperfine.MeasuredLevel> csP = DATA.measuredLevels(CONTEXT, row(CS, 1, 3));
+        assertEquals(List.of(6, 7, 41), csP.stream().map(m -> m.state().n()).toList());
+        assertEquals(0.718e9, csP.get(2).aNStarCubedHertz(), 1e-3);
+        RydbergHyperfine.ScalingLawError all = DATA.scalingLawError(CONTEXT);
+        for (RydbergHyperfine.Series s : DATA.series()) {
+            RydbergHyperfine.SeriesLaw own = DATA.seriesLaw(CONTEXT, s);
+            assertTrue(own.cap() <= all.cap() && own.driftPerN() <= all.driftPerN(), s.toString());
+            // a series' own pairs never change more than its cap allows
+            List<RydbergHyperfine.MeasuredLevel> m = DATA.measuredLevels(CONTEXT, s);
+            for (int i = 0; i < m.size(); i++) {
+                for (int k = i + 1; k < m.size(); k++) {
+                    double change = Math.abs(Math.log(m.get(k).aNStarCubedHertz() / m.get(i).aNStarCubedHertz()));
+                    assertTrue(change <= own.cap() + 1e-12, s + ": " + change + " > " + own.cap());
+                }
+            }
         }
     }
 
@@ -72,7 +110,7 @@ class RydbergHyperfineScalingLawTest {
         double previous = 0;
         for (int n = 4; n <= 40; n++) {
             double r = law(LI7, State.of(n, 0, 1));
-            assertEquals(Math.min(d * (n - 3), 0.2576856110141), r, 1e-9, "Li-7 " + n + "s");
+            assertEquals(Math.min(d * (n - 3), 0.0995148083737), r, 1e-9, "Li-7 " + n + "s"); // the s cap
             assertTrue(r >= previous, "Li-7 " + n + "s");
             previous = r;
         }
@@ -81,9 +119,12 @@ class RydbergHyperfineScalingLawTest {
         // the abstract): no law error inside that range, d = 0.00973 per n below it
         assertEquals(0, law(CS, State.of(48, 1, 3)), 0);
         assertEquals(0.00972858701347, law(CS, State.of(40, 1, 3)), 1e-9);
-        assertEquals(0.0972858701347, law(CS, State.of(31, 1, 3)), 1e-9);
-        assertEquals(21 * 0.00972858701347, law(CS, State.of(20, 1, 3)), 1e-9);
-        assertEquals(0.2576856110141, law(CS, State.of(10, 1, 3)), 1e-9); // 31 x 0.00973 = 0.30, capped
+        double pCap = DATA.seriesLaw(CONTEXT, row(CS, 1, 3)).cap();
+        assertEquals(0.00972858701347 * 9, law(CS, State.of(32, 1, 3)), 1e-9);
+        assertEquals(Math.min(0.0972858701347, pCap), law(CS, State.of(31, 1, 3)), 1e-9);
+        assertEquals(Math.min(21 * 0.00972858701347, pCap), law(CS, State.of(20, 1, 3)), 1e-9);
+        // 31 x 0.00973 = 0.30, capped at the p cap
+        assertEquals(DATA.seriesLaw(CONTEXT, row(CS, 1, 3)).cap(), law(CS, State.of(10, 1, 3)), 0);
         // Cs nD3/2 from 7d3/2 with its own drift, 0.0517 per n
         assertEquals(3 * 0.05172485568539, law(CS, State.of(10, 2, 3)), 1e-9);
         // and the uncertainty of A itself grows with it (Rb-87 nP1/2 from 6p: d = 0.000515 per n)
@@ -100,17 +141,17 @@ class RydbergHyperfineScalingLawTest {
 
     /**
      * Rb-87 60s from 7s (A = 319.759(28) MHz; H.-C. Chui et al. 2005, from memory): the carried uncertainty is
-     * 0.028 / 319.759 = 8.76e-5 of A; the law's 53 n x 0.0456 per n = 2.42 is capped at 0.2577: u(A) =
-     * A sqrt(8.76e-5^2 + 0.2576856^2) = 0.2576856 A (hand). Before the law was carried, u(A) was 8.76e-5 A; before
-     * the Cs 6d constants widened the cap, 0.0995148 A.
+     * 0.028 / 319.759 = 8.76e-5 of A; the law's 53 n x 0.0456 per n = 2.42 is capped at the s cap, 0.0995148: u(A)
+     * = A sqrt(8.76e-5^2 + 0.0995148^2) = 0.0995148 A (hand). Before the law was carried, u(A) was 8.76e-5 A; while
+     * one cap served every series, the Cs 6d constants made it 0.2576856 A.
      */
     @Test
     void aScaledConstantCarriesTheLawsErrorInQuadrature() {
         HyperfineConstants c = DATA.constants(CONTEXT, RB87, State.of(60, 0, 1)).orElseThrow();
         double carried = 0.028 / 319.759;
-        assertEquals(Math.abs(c.aHertz()) * Math.hypot(carried, 0.2576856110141), c.aUncertaintyHertz(),
+        assertEquals(Math.abs(c.aHertz()) * Math.hypot(carried, 0.0995148083737), c.aUncertaintyHertz(),
                 1e-9 * c.aUncertaintyHertz());
-        assertEquals(0.2576856, c.aUncertaintyHertz() / c.aHertz(), 1e-6);
+        assertEquals(0.0995148, c.aUncertaintyHertz() / c.aHertz(), 1e-6);
         // the measured reference level keeps its stated uncertainty only
         HyperfineConstants ref = DATA.constants(CONTEXT, RB87, State.of(7, 0, 1)).orElseThrow();
         assertEquals(0.028e6, ref.aUncertaintyHertz(), 1e-6);
