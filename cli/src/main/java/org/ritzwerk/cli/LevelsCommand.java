@@ -93,6 +93,19 @@ final class LevelsCommand implements Callable<Integer> {
                     + "series).")
     String state;
 
+    @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA", converter = HyperfineTables.Tesla.class,
+            description = "With --state: the level's Zeeman states in this magnetic field, tesla as a plain number "
+                    + "(1e-4 for 1 G; 0 to 1000): its hyperfine-Zeeman Hamiltonian diagonalised (Breit-Rabi for "
+                    + "J = 1/2), each state's shift from the hyperfine-free level, its uncertainty and field slope.")
+    Double fieldTesla;
+
+    @Option(names = HyperfineTables.FIELD_UNCERTAINTY_OPTION, paramLabel = "TESLA",
+            converter = HyperfineTables.FieldUncertainty.class,
+            description = "With --field-tesla: the field's standard uncertainty, tesla as a plain number (1e-6 for "
+                    + "10 mG); each state's uncertainty takes |dE/dB| times it in quadrature (first order). "
+                    + "Default: the field taken as exact.")
+    Double fieldUncertaintyTesla;
+
     @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
             description = "text (aligned table), csv or json (one object per line). Default: ${DEFAULT-VALUE}.")
     Table.Format format;
@@ -159,10 +172,23 @@ final class LevelsCommand implements Callable<Integer> {
                 }
             }
         }
+        rules.refuseUnless(HyperfineTables.FIELD_OPTION, state != null, "without " + RydbergHyperfineLevels.STATE_OPTION
+                + " (it gives the Zeeman states of one level: --hyperfine --state 5s1/2 --field-tesla 1e-4)");
+        rules.refuseUnless(HyperfineTables.FIELD_UNCERTAINTY_OPTION, fieldTesla != null, "without "
+                + HyperfineTables.FIELD_OPTION + " (it is that field's standard uncertainty)");
         if (state != null) {
             rules.refuseUnless(RydbergHyperfineLevels.STATE_OPTION, hyperfine && alkali && atoms.ions().isEmpty()
                     && levelSets.levels().isEmpty() && !lifetimes, "without --hyperfine, for other species than alkali "
                     + "atoms, or with --lifetimes (it lists the F levels of one alkali level)");
+            if (fieldTesla != null) {
+                OptionRules.range(HyperfineTables.FIELD_OPTION, fieldTesla, 0, true, 1000, "a field of 0 to 1000 T");
+                double u = fieldUncertaintyTesla == null ? 0 : fieldUncertaintyTesla;
+                OptionRules.range(HyperfineTables.FIELD_UNCERTAINTY_OPTION, u, 0, true, 1000,
+                        "a standard uncertainty of 0 to 1000 T");
+                RydbergHyperfineLevels.printZeeman(data.context(), atoms.alkalis(), state, fieldTesla, u,
+                        spec.commandLine().getOut(), spec.commandLine().getErr(), format);
+                return 0;
+            }
             RydbergHyperfineLevels.print(data.context(), atoms.alkalis(), state, spec.commandLine().getOut(), format);
             return 0;
         }

@@ -3,10 +3,14 @@ package org.ritzwerk.cli;
 import static org.ritzwerk.engine.hydrogenic.Notation.half;
 
 import java.io.PrintWriter;
+import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hyperfine.HyperfineConstants;
+import org.ritzwerk.engine.hyperfine.ZeemanState;
+import org.ritzwerk.engine.hyperfine.ZeemanStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.RydbergException;
 import org.ritzwerk.refdata.AlkaliHyperfine;
@@ -58,10 +62,7 @@ final class RydbergHyperfineLevels {
                 throw new OptionException(STATE_OPTION + ": " + e.getMessage());
             }
             HyperfineConstants constants = context.hyperfineConstants(atom.species(), state).orElseThrow(
-                    () -> new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
-                            + atom.species().notation() + " (constants are built in for the ground and first p "
-                            + "levels, Cs 7p, Rb-85 4d3/2, Cs 6d and, scaled as n*^-3, for the Rydberg series of "
-                            + "rydberg-hyperfine.csv)"));
+                    () -> noConstants(atom, state));
             List<AlkaliHyperfine.FLevel> levels = context.hyperfineLevels(atom.species(), state);
             for (AlkaliHyperfine.FLevel f : levels) {
                 table.add(atom.species().notation(), state.notation(), half(f.twoF()), f.twoF() + 1, f.energyPerCm(),
@@ -71,5 +72,89 @@ final class RydbergHyperfineLevels {
             }
         }
         table.finish();
+    }
+
+    /**
+     * {@code levels --hyperfine --state STATE --field-tesla B}: the level's Zeeman states
+     * ({@link DataContext#zeemanStates}), each with its zero-field F and m_F, its shift from the hyperfine-free
+     * level and the shift's standard uncertainty, its field slope and its largest |m_J m_I> component.
+     *
+     * @param context               the data context
+     * @param atoms                 the alkali isotopes asked for
+     * @param text                  the level as given, e.g. {@code 5s1/2}
+     * @param fieldTesla            the field, tesla (checked)
+     * @param fieldUncertaintyTesla its standard uncertainty, tesla (checked; 0 for an exact field)
+     * @param out                   where the table goes
+     * @param err                   where the notes go
+     * @param format                the table format
+     * @throws OptionException when the level cannot be read, does not exist, or has no constants
+     */
+    static void printZeeman(DataContext context, List<AlkaliAtom> atoms, String text, double fieldTesla,
+            double fieldUncertaintyTesla, PrintWriter out, PrintWriter err, Table.Format format) {
+        State state = AlkaliTables.parseState(STATE_OPTION, text);
+        Table table = new Table(List.of(
+                Table.Column.text("species", "species"),
+                Table.Column.text("label", "level"),
+                Table.Column.text("hyperfine_f", "F"),
+                Table.Column.text("m_f", "mF"),
+                Table.Column.number("shift_mhz", "shift MHz", "%.6f"),
+                Table.Column.number("shift_uncertainty_mhz", "u MHz", "%.2g"),
+                // MHz per mT in text (1e9 Hz per tesla); Hz per tesla in JSON and CSV, as lines prints it
+                new Table.Column("field_slope_hz_per_t", "dE/dB MHz/mT", value -> Table.unsignedZero(
+                        String.format(Locale.ROOT, "%.6f", ((Double) value) / 1e9))),
+                Table.Column.text("m_j", "mJ"),
+                Table.Column.text("m_i", "mI"),
+                Table.Column.number("weight", "weight", "%.4f"),
+                Table.Column.number("field_tesla", "T", "%.6g"),
+                Table.Column.number("field_uncertainty_tesla", "u T", "%.2g")), out, format);
+        List<String> mixing = new ArrayList<>();
+        for (AlkaliAtom atom : atoms) {
+            try {
+                atom.level(state);
+            } catch (RydbergException e) {
+                throw new OptionException(STATE_OPTION + ": " + e.getMessage());
+            }
+            List<ZeemanState> states = context.zeemanStates(atom.species(), state, fieldTesla, fieldUncertaintyTesla);
+            if (states.isEmpty()) {
+                throw noConstants(atom, state);
+            }
+            for (ZeemanState z : states) {
+                table.add(atom.species().notation(), state.notation(), half(z.twoF()), half(z.twoMF()),
+                        z.energyHertz() / 1e6, z.energyUncertaintyHertz() / 1e6, z.fieldSlopeHertzPerTesla(),
+                        z.dominant().mJLabel(), z.dominant().mILabel(), z.dominant().weight(), fieldTesla,
+                        fieldUncertaintyTesla);
+            }
+            if (state.l() > 0 && fieldTesla > 0) {
+                try {
+                    double fs = atom.frequencyHz(State.of(state.n(), state.l(), 2 * state.l() - 1),
+                            State.of(state.n(), state.l(), 2 * state.l() + 1));
+                    mixing.add(String.format(Locale.ROOT, "%s %s: up to %.2g MHz", atom.species().notation(),
+                            state.notation(), ZeemanStructure.fineStructureMixingHertz(state.l(), fs, fieldTesla)
+                                    / 1e6));
+                } catch (RydbergException e) {
+                    mixing.add(atom.species().notation() + " " + state.notation() + ": not estimated ("
+                            + e.getMessage() + ")");
+                }
+            }
+        }
+        table.finish();
+        err.println("note: each state's shift is from the level's hyperfine-free energy; u MHz holds the A and B "
+                + "constants' stated uncertainties (for scaled constants with the n*^-3 law's error) and "
+                + (fieldUncertaintyTesla > 0 ? "|dE/dB| times the field's " + HyperfineTables.fieldText(
+                        fieldUncertaintyTesla) + " T (first order)" : "not the field's (taken as exact; give "
+                        + HyperfineTables.FIELD_UNCERTAINTY_OPTION + ")") + ", not the level energy's own; g_J is the "
+                + "Lande value, g_I the bare nucleus'; F and mF name the zero-field state each one is followed from");
+        if (!mixing.isEmpty()) {
+            err.println("note: the level is diagonalised on its own: the field's mixing with its fine-structure "
+                    + "partner, left out, moves the states by " + String.join("; ", mixing) + " (second order; "
+                    + "lines --hyperfine --field-tesla diagonalises the whole first p term)");
+        }
+    }
+
+    private static OptionException noConstants(AlkaliAtom atom, State state) {
+        return new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
+                + atom.species().notation() + " (constants are built in for the ground and first p "
+                + "levels, Cs 7p, Rb-85 4d3/2, Cs 6d and, scaled as n*^-3, for the Rydberg series of "
+                + "rydberg-hyperfine.csv)");
     }
 }

@@ -28,6 +28,8 @@ import org.ritzwerk.data.MeasuredLevel;
 import org.ritzwerk.data.ModelPotential;
 import org.ritzwerk.data.QuantumDefects;
 import org.ritzwerk.engine.hyperfine.HyperfineConstants;
+import org.ritzwerk.engine.hyperfine.ZeemanState;
+import org.ritzwerk.engine.hyperfine.ZeemanStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.quantity.Unit;
 import org.ritzwerk.refdata.internal.RydbergData;
@@ -461,6 +463,43 @@ public final class DataContext {
     public List<AlkaliHyperfine.FLevel> hyperfineLevels(Species species, State state) {
         Optional<HyperfineConstants> constants = hyperfineConstants(species, state);
         return constants.isEmpty() ? List.of() : AlkaliHyperfine.fLevels(this, species, state, constants.get());
+    }
+
+    /**
+     * The Zeeman states of one level in a magnetic field: its hyperfine-Zeeman Hamiltonian in the |m_J m_I>
+     * basis with {@link #hyperfineConstants} (measured, or scaled as n*^-3 for a Rydberg level), g_J by the
+     * Lande formula with the CODATA 2018 electron g factor ({@link ZeemanStructure#landeG}) and g_I from the
+     * nucleus' moment, diagonalised at any field ({@link ZeemanStructure#eigenstates}; for J = 1/2 the
+     * Breit-Rabi levels). The level on its own: the field's mixing with its fine-structure partner is left out
+     * ({@link ZeemanStructure#fineStructureMixingHertz} gives its size; the whole first p term is diagonalised
+     * in {@link AlkaliHyperfine#zeemanComponents}), and so is the diamagnetic term.
+     *
+     * @param species               a neutral alkali isotope
+     * @param state                 a level with constants
+     * @param fieldTesla            the field, tesla, 0 to {@link ZeemanStructure#MAX_FIELD_TESLA}
+     * @param fieldUncertaintyTesla the field's standard uncertainty, tesla, finite and not negative
+     * @return the states by m_F, then energy; energies relative to the level's hyperfine-free centroid, each
+     *         with its standard uncertainty (from the constants' stated u(A), u(B), for scaled constants with
+     *         the n*^-3 law's error, by the Hellmann-Feynman theorem, and |dE/dB| u(B); the centroid's own
+     *         uncertainty is not in it) and its field slope dE/dB; empty when the level has no constants
+     * @throws ReferenceDataException when the nucleus has a spin but no magnetic moment here
+     * @throws IllegalArgumentException when the field or its uncertainty is out of range
+     */
+    public List<ZeemanState> zeemanStates(Species species, State state, double fieldTesla,
+            double fieldUncertaintyTesla) {
+        Optional<HyperfineConstants> constants = hyperfineConstants(species, state);
+        if (constants.isEmpty()) {
+            return List.of();
+        }
+        Nucleus nucleus = nucleus(species);
+        int twoI = nucleus.twiceSpin();
+        if (twoI > 0 && nucleus.magneticMoment().isEmpty()) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no magnetic moment for the "
+                    + "nucleus of " + species.notation() + " in the nuclear data: its Zeeman states need g_I");
+        }
+        double gI = twoI > 0 ? ZeemanStructure.nuclearG(nucleus.magneticMoment().getAsDouble(), twoI) : 0;
+        return ZeemanStructure.eigenstates(twoI, state.twoJ(), constants.get(),
+                ZeemanStructure.landeG(state.l(), state.twoJ()), gI, fieldTesla, fieldUncertaintyTesla);
     }
 
     /**
