@@ -34,7 +34,7 @@ Independent of the project's code:
     (Rb nD5/2) the largest d of that l: for s the Cs 6s - 7s figure, for d the Cs 6d5/2 - 7d5/2 figure (the
     largest of the project's pairs since the 6d constants were added; for one n apart d and cap are the same
     number), which RydbergHyperfineScalingLawTest checks over every series; a published scaled constant counts
-    as measured at the lowest n of its range (Cs nP3/2 at 41, X = 0.718 GHz); Rb nS: 5s and 7s; Cs nP3/2:
+    as measured at the lowest n of its range (Cs nP3/2 at 41, X = 0.718 GHz); Rb nS: 5s, 6s and 7s; Cs nP3/2:
     6p3/2 and 7p3/2; Cs nD3/2: 6d3/2 and 7d3/2;
     measured levels' n* = sqrt(R_M / (limit - E)), E = 0 for a ground level, or, for a level the level list
     lacks (Cs 6d3/2, 7d3/2, 7d5/2), n - delta(n) of the series' modified Rydberg-Ritz formula with every
@@ -167,8 +167,12 @@ CS_LAW_CAP = abs(mpmath.log(x_measured(M("-4.66"), CS_LIMIT, CS_RM, M("22631.686
 CS_S_CHANGE = abs(mpmath.log(x_measured(M("2298.1579425"), CS_LIMIT, CS_RM, M(0))
                              / x_measured(M("545.818"), CS_LIMIT, CS_RM, M("18535.5286"))))
 CS_D32_DRIFT = abs(mpmath.log(M("16.34") * n_star_ritz(CS_D32, 6) ** 3 / (M("7.3509") * n_star_ritz(CS_D32, 7) ** 3)))
-RB_S_DRIFT = abs(mpmath.log(x_measured(M("3417.34130545215"), RB_LIMIT, RB_RM, M(0))
-                            / x_measured(M("319.759"), RB_LIMIT, RB_RM, M("26311.436")))) / 2
+# Rb-87 nS: 5s, 6s (A = 807.66(8) MHz, Perez Galvan et al. 2008, read in the abstract; 6s at 20132.509 cm-1) and
+# 7s; the largest drift per n of the three pairs (5s - 6s)
+RB_X = [x_measured(M("3417.34130545215"), RB_LIMIT, RB_RM, M(0)),
+        x_measured(M("807.66"), RB_LIMIT, RB_RM, M("20132.509")),
+        x_measured(M("319.759"), RB_LIMIT, RB_RM, M("26311.436"))]
+RB_S_DRIFT = max(abs(mpmath.log(RB_X[i] / RB_X[k])) / (k - i) for i in range(3) for k in range(i + 1, 3))
 
 
 def law(drift, distance, cap):

@@ -81,7 +81,8 @@ final class LevelsCommand implements Callable<Integer> {
 
     @Option(names = "--hyperfine",
             description = "Alkali isotopes: split the levels with published hyperfine constants (the ground and "
-                    + "first p levels, Cs 7p, Rb-85 4d3/2, Cs 6d, and Rydberg series with n*^-3-scaled constants) "
+                    + "first p levels, Cs 7p, Rb 6s, Rb-85 4d3/2, Cs 6d, and Rydberg series with n*^-3-scaled "
+                    + "constants) "
                     + "into their F levels, "
                     + "each with its energy (Casimir formula with A and B) and g = 2F + 1.")
     boolean hyperfine;
@@ -89,7 +90,8 @@ final class LevelsCommand implements Callable<Integer> {
     @Option(names = RydbergHyperfineLevels.STATE_OPTION, paramLabel = "STATE",
             description = "With --hyperfine: only this alkali level (e.g. 60s1/2, 7s1/2, 5p3/2), split into its F "
                     + "levels with their shift from the hyperfine-free level in MHz and the A and B used (measured "
-                    + "for the ground and first p levels, Cs 7p, Rb-85 4d3/2 and Cs 6d, scaled as n*^-3 for Rydberg "
+                    + "for the ground and first p levels, Cs 7p, Rb 6s, Rb-85 4d3/2 and Cs 6d, scaled as n*^-3 for "
+                    + "Rydberg "
                     + "series).")
     String state;
 

@@ -18,7 +18,7 @@ import org.ritzwerk.refdata.DataContext;
 
 /**
  * {@code levels --hyperfine --state STATE}: the F levels of one alkali level (a Rydberg level with
- * n*^-3-scaled constants, or a ground, first p, Cs 7p, Rb-85 4d3/2 or Cs 6d level with measured ones), each
+ * n*^-3-scaled constants, or a ground, first p, Cs 7p, Rb 6s, Rb-85 4d3/2 or Cs 6d level with measured ones), each
  * with its energy and its shift from the hyperfine-free level, and A and B with their standard uncertainties
  * (for scaled constants including the n*^-3 law's own error; {@code -}, null in JSON, where none is stated).
  * Formatting only: the constants and F levels come from {@link DataContext#hyperfineConstants} and
@@ -154,7 +154,7 @@ final class RydbergHyperfineLevels {
     private static OptionException noConstants(AlkaliAtom atom, State state) {
         return new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
                 + atom.species().notation() + " (constants are built in for the ground and first p "
-                + "levels, Cs 7p, Rb-85 4d3/2, Cs 6d and, scaled as n*^-3, for the Rydberg series of "
+                + "levels, Cs 7p, Rb 6s, Rb-85 4d3/2, Cs 6d and, scaled as n*^-3, for the Rydberg series of "
                 + "rydberg-hyperfine.csv)");
     }
 }

@@ -72,6 +72,28 @@ class LowDLevelHyperfineTest {
     }
 
     /**
+     * Rb 6s 2S1/2: A = 239.18(3) MHz (Rb-85, I = 5/2) and 807.66(8) MHz (Rb-87, I = 3/2) (A. Perez Galvan, Y. Zhao
+     * and L. A. Orozco, Phys. Rev. A 78, 012502 (2008), read in the abstract): the F splitting is A (I + 1/2),
+     * 717.54 and 1615.32 MHz. The same abstract gives the isotopes' hyperfine anomaly difference, -0.0036(2): the
+     * ratio of the two A against the ratio of the nuclear g factors of the built-in isotope table must show it.
+     * Before these constants the level had none.
+     */
+    @Test
+    void rubidiumSixSSplitsWithThePublishedConstants() {
+        State s6 = State.of(6, 0, 1);
+        Species rb87 = Species.parse("Rb-87 I");
+        Map<Integer, Double> r85 = shiftsMhz(RB85, s6);
+        Map<Integer, Double> r87 = shiftsMhz(rb87, s6);
+        assertEquals(717.54, r85.get(6) - r85.get(4), 1e-6);
+        assertEquals(1615.32, r87.get(4) - r87.get(2), 1e-6);
+        assertEquals("measured", CONTEXT.hyperfineConstantsOrigin(rb87, s6).orElseThrow());
+        // A / (g_I) of the two isotopes: 1 + anomaly difference; g_I = mu / I
+        double g85 = CONTEXT.nucleus(RB85).magneticMoment().getAsDouble() / 2.5;
+        double g87 = CONTEXT.nucleus(rb87).magneticMoment().getAsDouble() / 1.5;
+        assertEquals(-0.0036, (807.66 / 239.18) / (g87 / g85) - 1, 0.0004);
+    }
+
+    /**
      * The ladder of the measurement, 5s1/2 -> 5p1/2 (795 nm) -> 4d3/2 (1476 nm): every F -> F' -> F'' path (F = 2,
      * 3; F' = 2, 3; F'' = 1 to 4; Delta F = 0, +-1 per step: 12 paths). The two steps of a path add up to the
      * F -> F'' two-photon frequency whatever F' (the intermediate shift cancels), and two paths from the same F and

@@ -38,7 +38,7 @@ class RydbergHyperfineScalingLawTest {
      * ln(206.09 / 159.28) = 0.2577 over one n. The golden script gives 0.2576856110141 (mpmath, 50 digits). Before
      * the 6d constants the largest was Cs 6s - 7s, 0.0995148083737 (A = 2298.1579425 MHz, the SI second, against
      * 545.818 MHz, G. Yang et al., arXiv:1601.02749, read in the abstract; the golden script prints it too), which
-     * is now Cs nS's own drift. Every other series' pair drifts less per n (Rb 5s - 7s 0.0456, Cs 6d3/2 - 7d3/2
+     * is now Cs nS's own drift. Every other series' pair drifts less per n (Rb 5s - 6s 0.0771, Cs 6d3/2 - 7d3/2
      * 0.0517, Na 3s - 4s 0.0229, K 4s - 7s 0.0208, Cs 6p1/2 - 7p1/2 0.0176, Li 2s - 3s 0.0115, Cs 6p3/2 - 7p3/2
      * 0.0097, Rb-87 5p - 6p 0.0013 and 0.0005), and changes less in all (Rb 5s - 7s 0.0912).
      */
@@ -49,8 +49,10 @@ class RydbergHyperfineScalingLawTest {
         assertEquals(0.2576856110141, law.cap(), 1e-9);
         assertEquals("Cs-133 I 6d 2D5/2 - 7d 2D5/2", law.pair());
         assertEquals(0.0995148083737, DATA.driftPerN(CONTEXT, row(CS, 0, 1)).orElseThrow(), 1e-9);
-        // Rb-87 5s - 7s over two n and Cs 6p3/2 - 7p3/2 over one (golden script: 0.0456225758483, 0.00972858701347)
-        assertEquals(0.0456225758483, DATA.driftPerN(CONTEXT, row(RB87, 0, 1)).orElseThrow(), 1e-9);
+        // Rb-87 5s - 6s (6s A = 807.66(8) MHz, A. Perez Galvan et al., Phys. Rev. A 78, 012502 (2008), read in the
+        // abstract), the largest of its three pairs, and Cs 6p3/2 - 7p3/2 over one n (golden script: 0.077137373749,
+        // 0.00972858701347); 5s - 7s over two n alone gave 0.0456
+        assertEquals(0.077137373749, DATA.driftPerN(CONTEXT, row(RB87, 0, 1)).orElseThrow(), 1e-9);
         assertEquals(0.00972858701347, DATA.driftPerN(CONTEXT, row(CS, 1, 3)).orElseThrow(), 1e-9);
         // Cs 6d3/2 (16.34 MHz, Kortyna et al. 2005) - 7d3/2 (7.3509 MHz, arXiv:2210.01481), both n* from the nD3/2
         // formula (the level list has neither): golden script 0.05172485568539
@@ -141,7 +143,7 @@ class RydbergHyperfineScalingLawTest {
 
     /**
      * Rb-87 60s from 7s (A = 319.759(28) MHz; H.-C. Chui et al. 2005, from memory): the carried uncertainty is
-     * 0.028 / 319.759 = 8.76e-5 of A; the law's 53 n x 0.0456 per n = 2.42 is capped at the s cap, 0.0995148: u(A)
+     * 0.028 / 319.759 = 8.76e-5 of A; the law's 53 n x 0.0771 per n = 4.1 is capped at the s cap, 0.0995148: u(A)
      * = A sqrt(8.76e-5^2 + 0.0995148^2) = 0.0995148 A (hand). Before the law was carried, u(A) was 8.76e-5 A; while
      * one cap served every series, the Cs 6d constants made it 0.2576856 A.
      */

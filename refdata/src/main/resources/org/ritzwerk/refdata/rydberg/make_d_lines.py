@@ -92,6 +92,8 @@ GEORGIADES_1994 = "N. Georgiades, E. Polzik and H. Kimble, Opt. Lett. 19, 1474 (
                   "the abstract of Kortyna et al. 2005"
 TAI_1975 = "C. Tai, W. Happer and R. Gupta, Phys. Rev. A 12, 736 (1975), as quoted in the abstract of Kortyna et " \
            "al. 2005"
+PEREZ_GALVAN_2008 = ("A. Perez Galvan, Y. Zhao and L. A. Orozco, Measurement of the hyperfine splitting of the "
+                     "6S1/2 level in rubidium, Phys. Rev. A 78, 012502 (2008), doi:10.1103/PhysRevA.78.012502")
 BIZE_1999 = ("S. Bize, Y. Sortais, M. S. Santos, C. Mandache, A. Clairon and C. Salomon, Europhys. Lett. 45, 558 "
              "(1999), doi:10.1209/epl/i1999-00203-9")
 SI_SECOND = ("the SI definition of the second (BIPM, The International System of Units, 9th edition, 2019): "
@@ -189,6 +191,12 @@ HYPERFINE = [
      KORTYNA_2005 + " (read in the abstract: 6d 2D3/2 A = 16.34 +- 0.05 MHz and B = -0.1 +- 0.3 MHz)"),
     ("Cs-133", "6d 2D5/2", "-4.66", "0.04", "0.9", "0.6", "published",
      KORTYNA_2005 + " (read in the abstract: 6d 2D5/2 A = -4.66 +- 0.04 MHz and B = 0.9 +- 0.6 MHz)"),
+    # Rb 6s (5p - 6s at 1324 and 1367 nm; 5s - 6s two-photon at 993 nm): read in the abstract, which also reports
+    # a hyperfine anomaly difference 87d85 = -0.0036(2) between the two isotopes' 6s constants
+    ("Rb-85", "6s 2S1/2", "239.18", "0.03", "", "", "published",
+     PEREZ_GALVAN_2008 + " (read in the abstract: A = 239.18(03) MHz for 85Rb)"),
+    ("Rb-87", "6s 2S1/2", "807.66", "0.08", "", "", "published",
+     PEREZ_GALVAN_2008 + " (read in the abstract: A = 807.66(08) MHz for 87Rb)"),
 ]
 
 # check S of the low d levels: a second measurement of the same level, as read (value, uncertainty, source).
