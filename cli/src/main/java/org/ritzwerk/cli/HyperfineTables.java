@@ -254,31 +254,36 @@ final class HyperfineTables {
                 + "; nuclear spin and moment: the isotope table (ritzwerk data show nuclear-isotopes)";
     }
 
-    /** Reads {@code --field-tesla}: a plain number of tesla; a value with a unit gets a message saying so. */
-    static final class Tesla implements picocli.CommandLine.ITypeConverter<Double> {
+    /** Reads a number of tesla given without a unit; a value with a unit gets a message naming the option. */
+    private abstract static class PlainTesla implements picocli.CommandLine.ITypeConverter<Double> {
+        /** @return what the option takes, with examples, e.g. "the field in tesla ... (e.g. 1e-4 for 1 G)" */
+        abstract String takes();
+
         @Override
         public Double convert(String value) {
             try {
                 return Double.valueOf(value.strip());
             } catch (NumberFormatException e) {
-                throw new picocli.CommandLine.TypeConversionException("'" + value + "' is not a number: "
-                        + FIELD_OPTION + " takes the field in tesla as a plain number, without a unit (e.g. 1e-4 for "
-                        + "1 G, 0.001 for 1 mT)");
+                throw new picocli.CommandLine.TypeConversionException("'" + value + "' is not a number: " + takes());
             }
         }
     }
 
-    /** Reads {@code --field-uncertainty-tesla}: a plain number of tesla; with a unit, a message saying so. */
-    static final class FieldUncertainty implements picocli.CommandLine.ITypeConverter<Double> {
+    /** Reads {@code --field-tesla}: a plain number of tesla; a value with a unit gets a message saying so. */
+    static final class Tesla extends PlainTesla {
         @Override
-        public Double convert(String value) {
-            try {
-                return Double.valueOf(value.strip());
-            } catch (NumberFormatException e) {
-                throw new picocli.CommandLine.TypeConversionException("'" + value + "' is not a number: "
-                        + FIELD_UNCERTAINTY_OPTION + " takes the field's standard uncertainty in tesla as a plain "
-                        + "number, without a unit (e.g. 1e-6 for 10 mG, 1e-7 for 1 mG)");
-            }
+        String takes() {
+            return FIELD_OPTION + " takes the field in tesla as a plain number, without a unit (e.g. 1e-4 for 1 G, "
+                    + "0.001 for 1 mT)";
+        }
+    }
+
+    /** Reads {@code --field-uncertainty-tesla}: a plain number of tesla; with a unit, a message saying so. */
+    static final class FieldUncertainty extends PlainTesla {
+        @Override
+        String takes() {
+            return FIELD_UNCERTAINTY_OPTION + " takes the field's standard uncertainty in tesla as a plain number, "
+                    + "without a unit (e.g. 1e-6 for 10 mG, 1e-7 for 1 mG)";
         }
     }
 
