@@ -92,9 +92,8 @@ final class HyperfineTables {
         }
         columns.add(Table.Column.number("frequency_hz", "Hz", "%.12e"));
         columns.add(Table.Column.number("uncertainty_hz", "u Hz", "%.2g"));
-        if (zeeman) { // Hz per tesla in JSON and CSV; MHz per mT (1e9 Hz per tesla) in text
-            columns.add(new Table.Column("field_slope_hz_per_t", "dnu/dB MHz/mT", value -> Table.unsignedZero(
-                    String.format(java.util.Locale.ROOT, "%.6f", ((Double) value) / 1e9))));
+        if (zeeman) {
+            columns.add(slopeColumn("dnu/dB MHz/mT"));
         }
         columns.addAll(List.of(
                 Table.Column.number("offset_mhz", "MHz from centroid", "%.4f"),
@@ -252,6 +251,16 @@ final class HyperfineTables {
         }
         return "note: " + atom.species().notation() + " sources: " + String.join("; ", items)
                 + "; nuclear spin and moment: the isotope table (ritzwerk data show nuclear-isotopes)";
+    }
+
+    /**
+     * @param heading the text heading
+     * @return the field slope's column, {@code field_slope_hz_per_t}: Hz per tesla in JSON and CSV, MHz per mT
+     *         (1e9 Hz per tesla) in text
+     */
+    static Table.Column slopeColumn(String heading) {
+        return new Table.Column("field_slope_hz_per_t", heading, value -> Table.unsignedZero(
+                String.format(java.util.Locale.ROOT, "%.6f", ((Double) value) / 1e9)));
     }
 
     /** Reads a number of tesla given without a unit; a value with a unit gets a message naming the option. */

@@ -42,6 +42,7 @@ import picocli.CommandLine.Spec;
             "  ritzwerk levels --species D --model hyperfine --n-max 2 --format json",
             "  ritzwerk levels --species \"He II\" --n-max 3 --lifetimes",
             "  ritzwerk levels --species \"Rb-87 I\" --n-max 80 --format json",
+            "  ritzwerk levels --species \"Rb-87 I\" --hyperfine --state 5s1/2 --field-tesla 1e-4",
             "  ritzwerk levels --species \"Cs I\" --n-max 40 --l-max 1 --lifetimes --temperature 300"})
 final class LevelsCommand implements Callable<Integer> {
 
@@ -92,7 +93,7 @@ final class LevelsCommand implements Callable<Integer> {
                     + "levels with their shift from the hyperfine-free level in MHz and the A and B used (measured "
                     + "for the ground and first p levels, Cs 7p, Rb 6s, Rb-85 4d3/2 and Cs 6d, scaled as n*^-3 for "
                     + "Rydberg "
-                    + "series).")
+                    + "series); with --field-tesla its Zeeman states instead.")
     String state;
 
     @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA", converter = HyperfineTables.Tesla.class,
@@ -182,13 +183,18 @@ final class LevelsCommand implements Callable<Integer> {
             rules.refuseUnless(RydbergHyperfineLevels.STATE_OPTION, hyperfine && alkali && atoms.ions().isEmpty()
                     && levelSets.levels().isEmpty() && !lifetimes, "without --hyperfine, for other species than alkali "
                     + "atoms, or with --lifetimes (it lists the F levels of one alkali level)");
+            for (String listing : List.of("--n-max", "--l-max", "--model")) {
+                rules.refuseUnless(listing, false, "with " + RydbergHyperfineLevels.STATE_OPTION + " (it lists the one "
+                        + "level it names)");
+            }
             if (fieldTesla != null) {
                 OptionRules.range(HyperfineTables.FIELD_OPTION, fieldTesla, 0, true, 1000, "a field of 0 to 1000 T");
-                double u = fieldUncertaintyTesla == null ? 0 : fieldUncertaintyTesla;
-                OptionRules.range(HyperfineTables.FIELD_UNCERTAINTY_OPTION, u, 0, true, 1000,
-                        "a standard uncertainty of 0 to 1000 T");
-                RydbergHyperfineLevels.printZeeman(data.context(), atoms.alkalis(), state, fieldTesla, u,
-                        spec.commandLine().getOut(), spec.commandLine().getErr(), format);
+                if (fieldUncertaintyTesla != null) {
+                    OptionRules.range(HyperfineTables.FIELD_UNCERTAINTY_OPTION, fieldUncertaintyTesla, 0, true, 1000,
+                            "a standard uncertainty of 0 to 1000 T");
+                }
+                RydbergHyperfineLevels.printZeeman(data.context(), atoms.alkalis(), state, fieldTesla,
+                        fieldUncertaintyTesla, spec.commandLine().getOut(), spec.commandLine().getErr(), format);
                 return 0;
             }
             RydbergHyperfineLevels.print(data.context(), atoms.alkalis(), state, spec.commandLine().getOut(), format);

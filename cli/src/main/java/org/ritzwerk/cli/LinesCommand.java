@@ -98,7 +98,8 @@ final class LinesCommand implements Callable<Integer> {
     @Option(names = HyperfineTables.FIELD_OPTION, paramLabel = "TESLA", converter = HyperfineTables.Tesla.class,
             description = "With --hyperfine: the m_F-resolved Zeeman components in this magnetic field, tesla as a "
                     + "plain number (1e-4 for 1 G; 0 to 1000; the ground level and the whole first p term "
-                    + "diagonalised, so p1/2 and p3/2 mix as the field grows, up to the Paschen-Back regime).")
+                    + "diagonalised, so p1/2 and p3/2 mix as the field grows, up to the Paschen-Back regime), each "
+                    + "with its field slope (dnu/dB).")
     Double fieldTesla;
 
     @Option(names = HyperfineTables.FIELD_UNCERTAINTY_OPTION, paramLabel = "TESLA",

@@ -83,30 +83,33 @@ final class RydbergHyperfineLevels {
      * @param atoms                 the alkali isotopes asked for
      * @param text                  the level as given, e.g. {@code 5s1/2}
      * @param fieldTesla            the field, tesla (checked)
-     * @param fieldUncertaintyTesla its standard uncertainty, tesla (checked; 0 for an exact field)
+     * @param fieldUncertaintyTesla its standard uncertainty, tesla (checked), or null when not given (exact)
      * @param out                   where the table goes
      * @param err                   where the notes go
      * @param format                the table format
      * @throws OptionException when the level cannot be read, does not exist, or has no constants
      */
     static void printZeeman(DataContext context, List<AlkaliAtom> atoms, String text, double fieldTesla,
-            double fieldUncertaintyTesla, PrintWriter out, PrintWriter err, Table.Format format) {
+            Double fieldUncertaintyTesla, PrintWriter out, PrintWriter err, Table.Format format) {
         State state = AlkaliTables.parseState(STATE_OPTION, text);
-        Table table = new Table(List.of(
+        List<Table.Column> columns = new ArrayList<>(List.of(
                 Table.Column.text("species", "species"),
                 Table.Column.text("label", "level"),
                 Table.Column.text("hyperfine_f", "F"),
                 Table.Column.text("m_f", "mF"),
                 Table.Column.number("shift_mhz", "shift MHz", "%.6f"),
                 Table.Column.number("shift_uncertainty_mhz", "u MHz", "%.2g"),
-                // MHz per mT in text (1e9 Hz per tesla); Hz per tesla in JSON and CSV, as lines prints it
-                new Table.Column("field_slope_hz_per_t", "dE/dB MHz/mT", value -> Table.unsignedZero(
-                        String.format(Locale.ROOT, "%.6f", ((Double) value) / 1e9))),
+                HyperfineTables.slopeColumn("dE/dB MHz/mT"),
                 Table.Column.text("m_j", "mJ"),
                 Table.Column.text("m_i", "mI"),
                 Table.Column.number("weight", "weight", "%.4f"),
-                Table.Column.number("field_tesla", "T", "%.6g"),
-                Table.Column.number("field_uncertainty_tesla", "u T", "%.2g")), out, format);
+                Table.Column.number("field_tesla", "T", "%.6g")));
+        // the field's uncertainty as a column only when it is given, as lines prints it
+        if (fieldUncertaintyTesla != null) {
+            columns.add(Table.Column.number("field_uncertainty_tesla", "u T", "%.2g"));
+        }
+        Table table = new Table(columns, out, format);
+        double uField = fieldUncertaintyTesla == null ? 0 : fieldUncertaintyTesla;
         List<String> mixing = new ArrayList<>();
         for (AlkaliAtom atom : atoms) {
             try {
@@ -114,15 +117,19 @@ final class RydbergHyperfineLevels {
             } catch (RydbergException e) {
                 throw new OptionException(STATE_OPTION + ": " + e.getMessage());
             }
-            List<ZeemanState> states = context.zeemanStates(atom.species(), state, fieldTesla, fieldUncertaintyTesla);
+            List<ZeemanState> states = context.zeemanStates(atom.species(), state, fieldTesla, uField);
             if (states.isEmpty()) {
                 throw noConstants(atom, state);
             }
             for (ZeemanState z : states) {
-                table.add(atom.species().notation(), state.notation(), half(z.twoF()), half(z.twoMF()),
-                        z.energyHertz() / 1e6, z.energyUncertaintyHertz() / 1e6, z.fieldSlopeHertzPerTesla(),
-                        z.dominant().mJLabel(), z.dominant().mILabel(), z.dominant().weight(), fieldTesla,
-                        fieldUncertaintyTesla);
+                List<Object> row = new ArrayList<>(List.of(atom.species().notation(), state.notation(), half(z.twoF()),
+                        half(z.twoMF()), z.energyHertz() / 1e6, z.energyUncertaintyHertz() / 1e6,
+                        z.fieldSlopeHertzPerTesla(), z.dominant().mJLabel(), z.dominant().mILabel(),
+                        z.dominant().weight(), fieldTesla));
+                if (fieldUncertaintyTesla != null) {
+                    row.add(fieldUncertaintyTesla);
+                }
+                table.add(row.toArray());
             }
             if (state.l() > 0 && fieldTesla > 0) {
                 try {
@@ -140,10 +147,11 @@ final class RydbergHyperfineLevels {
         table.finish();
         err.println("note: each state's shift is from the level's hyperfine-free energy; u MHz holds the A and B "
                 + "constants' stated uncertainties (for scaled constants with the n*^-3 law's error) and "
-                + (fieldUncertaintyTesla > 0 ? "|dE/dB| times the field's " + HyperfineTables.fieldText(
+                + (fieldUncertaintyTesla != null ? "|dE/dB| times the field's " + HyperfineTables.fieldText(
                         fieldUncertaintyTesla) + " T (first order)" : "not the field's (taken as exact; give "
-                        + HyperfineTables.FIELD_UNCERTAINTY_OPTION + ")") + ", not the level energy's own; g_J is the "
-                + "Lande value, g_I the bare nucleus'; F and mF name the zero-field state each one is followed from");
+                        + HyperfineTables.FIELD_UNCERTAINTY_OPTION + ")") + ", not the level energy's own nor that of "
+                + "a constant a Rydberg series' row does not give (B of Rb nP3/2, nD5/2); g_J is the Lande value, g_I "
+                + "the bare nucleus'; F and mF name the zero-field state each one is followed from");
         if (!mixing.isEmpty()) {
             err.println("note: the level is diagonalised on its own: the field's mixing with its fine-structure "
                     + "partner, left out, moves the states by " + String.join("; ", mixing) + " (second order; "

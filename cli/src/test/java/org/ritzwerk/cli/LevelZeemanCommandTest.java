@@ -127,8 +127,33 @@ class LevelZeemanCommandTest {
         }
     }
 
+    /**
+     * A Rydberg series' row that gives no B (Rb-87 nP3/2) leaves B's uncertainty out, as the ladders do, so that
+     * the A constant's and the field's still count: every state has a finite uncertainty of at least |dE/dB| u(B).
+     * Before, the unstated B made every state's uncertainty "-", the field's too. Without the option, no column.
+     */
+    @Test
+    void aRowWithoutBStillGivesEachStateAnUncertainty() {
+        CliTest.Run run = CliTest.run("levels", "--species", "Rb-87 I", "--hyperfine", "--state", "30p3/2",
+                "--field-tesla", "1e-3", "--field-uncertainty-tesla", "1e-7", "--format", "json");
+        assertEquals(0, run.code(), run.err());
+        List<JsonNode> rows = rows(run.out());
+        assertEquals(16, rows.size(), run.out());
+        for (JsonNode r : rows) {
+            assertTrue(r.get("shift_uncertainty_mhz").isNumber(), r.toString());
+            double field = Math.abs(r.get("field_slope_hz_per_t").asDouble()) * 1e-7 / 1e6;
+            assertTrue(r.get("shift_uncertainty_mhz").asDouble() >= field * (1 - 1e-12), r.toString());
+        }
+        CliTest.Run exact = CliTest.run("levels", "--species", "Rb-87 I", "--hyperfine", "--state", "30p3/2",
+                "--field-tesla", "1e-3", "--format", "json");
+        assertTrue(rows(exact.out()).get(0).get("field_uncertainty_tesla") == null, exact.out());
+        assertTrue(exact.err().contains("taken as exact"), exact.err());
+    }
+
     @Test
     void theFieldOptionsAreRefusedWhereTheyDoNothingOrAreBad() {
+        refused("a listing option", "--n-max has no effect with --state", "levels", "--species", "Rb-87 I",
+                "--hyperfine", "--state", "5s1/2", "--field-tesla", "1e-4", "--n-max", "3");
         refused("needs --state", "--field-tesla has no effect without --state", "levels", "--species", "Rb-87 I",
                 "--hyperfine", "--field-tesla", "1e-4");
         refused("uncertainty alone", "--field-uncertainty-tesla has no effect without --field-tesla", "levels",

@@ -430,9 +430,7 @@ public final class AlkaliHyperfine {
     public List<ZeemanComponent> zeemanComponents(DataContext context, Species species, State lower, State upper,
             double fieldTesla, double fieldUncertaintyTesla) {
         Pair p = pair(context, species, lower, upper);
-        Nucleus nucleus = context.nucleus(species);
-        double gI = nucleus.magneticMoment().isPresent() && p.twoI > 0
-                ? ZeemanStructure.nuclearG(nucleus.magneticMoment().getAsDouble(), p.twoI) : 0;
+        double gI = nuclearG(context, species);
         if (lower.l() == 0 && upper.l() == 1) {
             State p12 = State.of(upper.n(), 1, 1);
             State p32 = State.of(upper.n(), 1, 3);
@@ -640,6 +638,24 @@ public final class AlkaliHyperfine {
         AlkaliAtom atom = context.alkaliAtom(species);
         return new Pair(context.nucleus(species).twiceSpin(), lo.constants(), up.constants(),
                 atom.frequencyHz(lower, upper), atom.frequencyUncertaintyHz(lower, upper).orElse(Double.NaN));
+    }
+
+    /**
+     * @return g_I of the isotope's nucleus in units of mu_B ({@link ZeemanStructure#nuclearG}), 0 for a nucleus
+     *         without spin
+     * @throws ReferenceDataException when the nucleus has a spin but the nuclear data give no magnetic moment
+     */
+    static double nuclearG(DataContext context, Species species) {
+        Nucleus nucleus = context.nucleus(species);
+        int twoI = nucleus.twiceSpin();
+        if (twoI == 0) {
+            return 0;
+        }
+        if (nucleus.magneticMoment().isEmpty()) {
+            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no magnetic moment for the "
+                    + "nucleus of " + species.notation() + " in the nuclear data: its Zeeman states need g_I");
+        }
+        return ZeemanStructure.nuclearG(nucleus.magneticMoment().getAsDouble(), twoI);
     }
 
     private ReferenceDataException missing(Species species, State state) {

@@ -481,7 +481,8 @@ public final class DataContext {
      * @return the states by m_F, then energy; energies relative to the level's hyperfine-free centroid, each
      *         with its standard uncertainty (from the constants' stated u(A), u(B), for scaled constants with
      *         the n*^-3 law's error, by the Hellmann-Feynman theorem, and |dE/dB| u(B); the centroid's own
-     *         uncertainty is not in it) and its field slope dE/dB; empty when the level has no constants
+     *         uncertainty is not in it, nor that of a constant a Rydberg series' row does not give, such as B of
+     *         Rb nP3/2) and its field slope dE/dB; empty when the level has no constants
      * @throws ReferenceDataException when the nucleus has a spin but no magnetic moment here
      * @throws IllegalArgumentException when the field or its uncertainty is out of range
      */
@@ -491,14 +492,13 @@ public final class DataContext {
         if (constants.isEmpty()) {
             return List.of();
         }
-        Nucleus nucleus = nucleus(species);
-        int twoI = nucleus.twiceSpin();
-        if (twoI > 0 && nucleus.magneticMoment().isEmpty()) {
-            throw new ReferenceDataException(ReferenceDataException.UNKNOWN_DATA_SET, "no magnetic moment for the "
-                    + "nucleus of " + species.notation() + " in the nuclear data: its Zeeman states need g_I");
-        }
-        double gI = twoI > 0 ? ZeemanStructure.nuclearG(nucleus.magneticMoment().getAsDouble(), twoI) : 0;
-        return ZeemanStructure.eigenstates(twoI, state.twoJ(), constants.get(),
+        int twoI = nucleus(species).twiceSpin();
+        double gI = AlkaliHyperfine.nuclearG(this, species);
+        // a Rydberg series' constant the row does not give (B of Rb nP3/2, nD5/2) enters without an uncertainty,
+        // as in the ladders (AlkaliHyperfine.ladderComponents), so that the stated ones and the field's still count
+        HyperfineConstants c = alkaliHyperfine().constants(species, state).isPresent() ? constants.get()
+                : constants.get().withStatedUncertaintiesOnly();
+        return ZeemanStructure.eigenstates(twoI, state.twoJ(), c,
                 ZeemanStructure.landeG(state.l(), state.twoJ()), gI, fieldTesla, fieldUncertaintyTesla);
     }
 

@@ -47,8 +47,9 @@ import org.ritzwerk.engine.internal.angular.WignerSymbols;
  * ({@link ZeemanComponent#fieldSlopeHertzPerTesla}). Given a standard uncertainty of the field u(B), the
  * methods that take one add {@code |dE/dB| u(B)} to a state's energy uncertainty and {@code |d nu/dB| u(B)} to a
  * component's frequency uncertainty, in quadrature: first order, so good while u(B) is small against the field
- * over which the slope changes (about A / (mu_B / h): a few tenths of a tesla for the alkali ground levels, a few
- * mT for their p3/2 levels; near a turning point, where the slope is 0, the second-order part
+ * over which the slope changes (about A / (mu_B / h): a few tenths of a tesla for the Rb and Cs ground levels, 10
+ * to 60 mT for those of Li, K and Na, a few mT for Rb and Cs p3/2 and below 1 mT for Li and K p3/2; near a turning
+ * point, where the slope is 0, the second-order part
  * (d^2 nu/dB^2) u(B)^2 / 2 that is left out may dominate).
  * A u(B) of 0 changes nothing, to the bit.
  *
