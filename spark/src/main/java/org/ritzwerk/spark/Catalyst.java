@@ -126,9 +126,10 @@ final class Catalyst {
      * @return whether Spark's optimizer knows the table's first column to be unique: its optimized
      *         plan has a set of distinct keys made of that column alone (an aggregate grouped by it, as
      *         {@code groupBy("id")} or {@link SurveyIdentification#peakLists} make; a
-     *         {@code dropDuplicates("id")}), or none at all (at most one row). Found on the driver
-     *         without running anything; false wherever Spark cannot tell (a source or a cache read as
-     *         it is, a union, a join, or {@code spark.sql.optimizer.propagateDistinctKeys.enabled} off)
+     *         {@code dropDuplicates("id")}; a filter, sort or limit of such a table; a join of it onto a
+     *         table Spark knows unique on the join keys). Found on the driver without running anything;
+     *         false wherever Spark cannot tell (a source or a cache read as it is, a union, other joins,
+     *         or {@code spark.sql.optimizer.propagateDistinctKeys.enabled} off)
      */
     static boolean uniqueFirstColumn(Dataset<Row> table) {
         LogicalPlan plan = classic(table).queryExecution().optimizedPlan();
