@@ -226,9 +226,11 @@ class LoneEndPairTest {
     /**
      * The foreign line {@code offset} pixels (towards longer wavelengths when positive) from the
      * scene's missing line, the noise seeds taken 1, 2, 3, 1, ... in turn: the matcher's pairing
-     * leaves it out, and the calibration is right or refused.
+     * leaves it out, and the calibration is right or refused; at most one run refused (with the check
+     * none was in 2026-12-05's runs), so that a matcher refusing every scene cannot pass.
      */
     private void assertDroppedAtEveryOffset(Scene scene, double[] offsets) {
+        int refused = 0;
         for (int i = 0; i < offsets.length; i++) {
             double offset = offsets[i];
             long seed = 1 + i % 3;
@@ -238,7 +240,8 @@ class LoneEndPairTest {
             Calibration calibration = calibrateOrNull(scene, scene.withForeign(offset, seed), foreignPixel,
                     Calibrator.defaults(), where);
             if (calibration == null) {
-                continue; // a refusal is allowed
+                refused++; // a refusal is allowed, once
+                continue;
             }
             assertTrue(Math.abs(offset) > TOLERANCE, where);
             assertFalse(holds(calibration.firstMatch(), foreignPixel), where
@@ -246,6 +249,7 @@ class LoneEndPairTest {
                     + " px away");
             assertRight(scene, calibration, foreignPixel, where);
         }
+        assertTrue(refused <= 1, refused + " of " + offsets.length + " runs refused");
     }
 
     /** The calibration, checking that the intruding peak at {@code pixel} was detected; null if refused. */
