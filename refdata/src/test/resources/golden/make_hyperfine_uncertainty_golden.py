@@ -185,11 +185,13 @@ def with_law(a, u_a, r):
 
 scale_60s = (n_star_measured(RB_LIMIT, RB_RM, M("26311.436")) / n_star_formula(RB_S[0], 60)) ** 3
 a_60s = M("319.759") * MHZ_HZ * scale_60s
-RB["60s1/2"] = (1, a_60s, with_law(a_60s, M("0.028") * MHZ_HZ * scale_60s, law(RB_S_DRIFT, 60 - 7, CS_S_CHANGE)), M(0), M(0))
+RB["60s1/2"] = (1, a_60s, with_law(a_60s, M("0.028") * MHZ_HZ * scale_60s, law(RB_S_DRIFT, 60 - 7, CS_S_CHANGE)),
+                M(0), M(0))
 scale_60d = (n_star_measured(RB_LIMIT, RB_RM, M("30281.619")) / n_star_formula(RB_D52[0], 60)) ** 3
 # no B given for the series: the quadrupole term and its uncertainty are left out (B = 0, u_B = 0)
 a_60d = M("-2.2") * MHZ_HZ * scale_60d
-RB["60d5/2"] = (5, a_60d, with_law(a_60d, M("0.5") * MHZ_HZ * scale_60d, law(CS_LAW_CAP, 60 - 7, CS_LAW_CAP)), M(0), M(0))
+RB["60d5/2"] = (5, a_60d, with_law(a_60d, M("0.5") * MHZ_HZ * scale_60d, law(CS_LAW_CAP, 60 - 7, CS_LAW_CAP)),
+                M(0), M(0))
 CS = {
     "6s1/2": (1, M("2298.1579425") * MHZ_HZ, M(0), M(0), M(0)),
     "6p3/2": (3, M("50.28827") * MHZ_HZ, M("0.00023") * MHZ_HZ, M("-0.4934") * MHZ_HZ, M("0.0017") * MHZ_HZ),

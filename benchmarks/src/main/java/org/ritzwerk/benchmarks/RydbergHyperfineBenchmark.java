@@ -28,7 +28,8 @@ import org.ritzwerk.refdata.RydbergHyperfine;
  * error (from every series' measured levels) the context works out once and keeps, beside the naive baseline
  * {@link #lawPerLevel}, the same constants from {@link RydbergHyperfine#recomputingLaw()}, which works the law out
  * anew for each scaled level (every series' drift and the caps of each l: more than the code before the memo
- * did per level, which worked out the overall figures and the one series' drift). One shared context, its atoms assembled in the set-up; the
+ * did per level, which worked out the overall figures and the one series' drift). One shared context, its atoms
+ * assembled in the set-up; the
  * kept law is worked out in the first call and reused after, so the figure is a warm context's listing.
  */
 @State(Scope.Benchmark)

@@ -72,7 +72,8 @@ import org.ritzwerk.medium.Medium;
  * covariance alone, 3.3 with this factor (1.83 on the covariance, so 1.35 on the uncertainty) and 1.65 with
  * the next degree's widening below as well (7.14 on the covariance in all). On the exposures before
  * that date seed 61 showed the same, 3.9 before this factor and 3.2 after; it is now fitted with a
- * cubic, 0.043 pixel off at most, 1.4 stated uncertainties.) A degree chosen below {@value #USUAL_DEGREE} is widened further, pixel by pixel
+ * cubic, 0.043 pixel off at most, 1.4 stated uncertainties.) A degree chosen below
+ * {@value #USUAL_DEGREE} is widened further, pixel by pixel
  * in effect, to cover what the next degree's fit leaves open between the pairs
  * ({@link #nextDegreeScale}); the factor of both is {@link DispersionSolution#modelSelectionScale()}.
  * From the usual degree up, where that widening does not apply, the fit keeps the next degree's
