@@ -101,8 +101,13 @@ public final class DataContext {
     private volatile NuclearData nuclear;
     private volatile List<Species> alkaliSpecies;
     private final ConcurrentMap<Species, AlkaliAtom> alkalis = new ConcurrentHashMap<>();
-    /** The n*^-3 law's figures of each Rydberg hyperfine data set asked with this context (by identity). */
-    private final ConcurrentMap<RydbergHyperfine, RydbergHyperfine.Law> scalingLaws = new ConcurrentHashMap<>();
+    /**
+     * The n*^-3 law's figures of each Rydberg hyperfine data set asked with this context (by identity: the data
+     * set keeps identity equality), held weakly, so that a data set read from a user's file and dropped is not
+     * kept alive by a long-lived context; the map's lock is held while a set's figures are worked out.
+     */
+    private final Map<RydbergHyperfine, RydbergHyperfine.Law> scalingLaws =
+            java.util.Collections.synchronizedMap(new java.util.WeakHashMap<>());
     private final AtomicInteger scalingLawsWorkedOut = new AtomicInteger();
 
     private DataContext(DataRegistry registry) {
