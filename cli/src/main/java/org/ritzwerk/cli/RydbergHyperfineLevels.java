@@ -62,7 +62,7 @@ final class RydbergHyperfineLevels {
                 throw new OptionException(STATE_OPTION + ": " + e.getMessage());
             }
             HyperfineConstants constants = context.hyperfineConstants(atom.species(), state).orElseThrow(
-                    () -> noConstants(atom, state));
+                    () -> noConstants(context, atom, state));
             List<AlkaliHyperfine.FLevel> levels = context.hyperfineLevels(atom.species(), state);
             for (AlkaliHyperfine.FLevel f : levels) {
                 table.add(atom.species().notation(), state.notation(), half(f.twoF()), f.twoF() + 1, f.energyPerCm(),
@@ -119,7 +119,7 @@ final class RydbergHyperfineLevels {
             }
             List<ZeemanState> states = context.zeemanStates(atom.species(), state, fieldTesla, uField);
             if (states.isEmpty()) {
-                throw noConstants(atom, state);
+                throw noConstants(context, atom, state);
             }
             for (ZeemanState z : states) {
                 List<Object> row = new ArrayList<>(List.of(atom.species().notation(), state.notation(), half(z.twoF()),
@@ -159,10 +159,12 @@ final class RydbergHyperfineLevels {
         }
     }
 
-    private static OptionException noConstants(AlkaliAtom atom, State state) {
+    private static OptionException noConstants(DataContext context, AlkaliAtom atom, State state) {
+        List<String> measured = context.alkaliHyperfine().constants(atom.species()).stream()
+                .map(c -> c.state().label()).toList();
         return new OptionException(STATE_OPTION + ": no hyperfine constants for " + state.label() + " of "
-                + atom.species().notation() + " (constants are built in for the ground and first p "
-                + "levels, Cs 7p, Rb 6s, Rb-85 4d3/2, Cs 6d and, scaled as n*^-3, for the Rydberg series of "
-                + "rydberg-hyperfine.csv)");
+                + atom.species().notation() + " (measured constants here for " + (measured.isEmpty() ? "no level"
+                        : String.join(", ", measured)) + "; and, scaled as n*^-3, for the Rydberg levels of the "
+                + "series in rydberg-hyperfine.csv)");
     }
 }

@@ -164,8 +164,9 @@ class LevelZeemanCommandTest {
                 "Rb-87 I", "--hyperfine", "--state", "5s1/2", "--field-tesla", "1mT");
         refused("NaN uncertainty", "--field-uncertainty-tesla must be", "levels", "--species", "Rb-87 I",
                 "--hyperfine", "--state", "5s1/2", "--field-tesla", "1e-4", "--field-uncertainty-tesla", "NaN");
-        refused("no constants", "no hyperfine constants for", "levels", "--species", "Rb-87 I",
-                "--hyperfine", "--state", "9f7/2", "--field-tesla", "1e-4");
+        refused("no constants", "no hyperfine constants for 9f7/2 of Rb-87 I (measured constants here for 5s1/2, "
+                + "5p1/2, 5p3/2, 6s1/2;", "levels", "--species", "Rb-87 I", "--hyperfine", "--state", "9f7/2",
+                "--field-tesla", "1e-4");
     }
 
     private static void refused(String what, String message, String... args) {
