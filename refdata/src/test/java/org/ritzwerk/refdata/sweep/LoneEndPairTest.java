@@ -159,6 +159,7 @@ class LoneEndPairTest {
     void aSecondOrderGhostBesideTheMissingEndLineIsNeverPaired() {
         double ghostNm = 2 * HG_404;
         double[] kappas = {0.4, -0.3};
+        int solved = 0;
         for (int k = 0; k < kappas.length; k++) {
             Scene scene = new Scene(mercuryNeon, LampExposures.dispersion(589.5, 222, PIXELS, kappas[k], 0.05),
                     new double[] {NE_808, NE_794}, false);
@@ -169,6 +170,7 @@ class LoneEndPairTest {
                     ghostPixel - scene.pixelOf(NE_808), seed);
             Calibration withImages = calibrateOrNull(scene, counts, ghostPixel, Calibrator.defaults(), where);
             if (withImages != null) {
+                solved++;
                 assertFalse(holds(withImages.firstMatch(), ghostPixel), where + ": the matcher pairs the ghost");
                 assertTrue(isImage(withImages, ghostPixel), where + ": the ghost is not explained as an image");
                 assertRight(scene, withImages, ghostPixel, where);
@@ -177,16 +179,19 @@ class LoneEndPairTest {
             Calibration withoutImages = calibrateOrNull(scene, counts, ghostPixel,
                     Calibrator.defaults().withSecondOrder(false), without);
             if (withoutImages != null) {
+                solved++;
                 assertFalse(holds(withoutImages.firstMatch(), ghostPixel), without
                         + ": the matcher's pairing holds the lone end pair the others put "
                         + String.format(Locale.ROOT, "%.1f", ghostPixel - scene.pixelOf(NE_808)) + " px away");
                 assertRight(scene, withoutImages, ghostPixel, without);
             }
         }
+        assertTrue(solved >= 3, solved + " of 4 calibrations solved"); // a matcher refusing all cannot pass
     }
 
     @Test
     void aForeignEndPeakWithinTheToleranceIsLeftOutByTheFit() {
+        int solved = 0;
         for (double offset : new double[] {-2, 2}) {
             for (long seed = 1; seed <= 2; seed++) {
                 double foreignPixel = high.pixelOf(NE_794) + high.direction() * offset;
@@ -195,10 +200,12 @@ class LoneEndPairTest {
                 Calibration calibration = calibrateOrNull(high, high.withForeign(offset, seed), foreignPixel,
                         Calibrator.defaults(), where);
                 if (calibration != null) {
+                    solved++;
                     assertRight(high, calibration, foreignPixel, where);
                 }
             }
         }
+        assertTrue(solved >= 3, solved + " of 4 runs solved"); // a matcher refusing all cannot pass
     }
 
     /**
@@ -212,15 +219,18 @@ class LoneEndPairTest {
     void aForeignPeakBeyondTheChecksReachIsLeftOutFurtherOn() {
         Scene fine = new Scene(neon, LampExposures.dispersion(535, 222, PIXELS, 0.4, 0.05), new double[] {NE_540},
                 false);
+        int solved = 0;
         for (double offset : new double[] {-4.5, 5}) {
             double foreignPixel = fine.pixelOf(NE_540) + offset;
             String where = String.format(Locale.ROOT, "foreign peak %+.1f px from Ne I 540.06 nm, seed 1", offset);
             Calibration calibration = calibrateOrNull(fine, fine.withForeign(offset, 1), foreignPixel,
                     Calibrator.defaults(), where);
             if (calibration != null) {
+                solved++;
                 assertRight(fine, calibration, foreignPixel, where);
             }
         }
+        assertTrue(solved >= 1, solved + " of 2 runs solved"); // a matcher refusing all cannot pass
     }
 
     /**
