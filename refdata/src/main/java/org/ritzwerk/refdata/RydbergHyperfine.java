@@ -330,15 +330,35 @@ public final class RydbergHyperfine {
      * @return the drift per n, or empty when the series has fewer than two measured levels here
      */
     public Optional<Double> driftPerN(DataContext context, Series row) {
-        List<MeasuredLevel> levels = measuredLevels(context, row);
-        double max = -1;
-        for (int i = 0; i < levels.size(); i++) {
-            for (int k = i + 1; k < levels.size(); k++) {
-                max = Math.max(max, logRatio(levels.get(i), levels.get(k))
-                        / (levels.get(k).state().n() - levels.get(i).state().n()));
+        SeriesFigures f = SeriesFigures.of(row, measuredLevels(context, row));
+        return f.drift() < 0 ? Optional.empty() : Optional.of(f.drift());
+    }
+
+    /**
+     * One series' pairs of measured levels, read once: the largest drift per n (and the pair that gives it) and
+     * the largest change; both -1 (and no pair) when it has fewer than two measured levels.
+     */
+    private record SeriesFigures(double drift, double change, String pair) {
+
+        static SeriesFigures of(Series row, List<MeasuredLevel> levels) {
+            double drift = -1;
+            double change = -1;
+            String pair = "";
+            for (int i = 0; i < levels.size(); i++) {
+                for (int k = i + 1; k < levels.size(); k++) {
+                    MeasuredLevel a = levels.get(i);
+                    MeasuredLevel b = levels.get(k);
+                    double c = logRatio(a, b);
+                    double perN = c / (b.state().n() - a.state().n());
+                    change = Math.max(change, c);
+                    if (perN > drift) {
+                        drift = perN;
+                        pair = row.species().notation() + " " + a.state().notation() + " - " + b.state().notation();
+                    }
+                }
             }
+            return new SeriesFigures(drift, change, pair);
         }
-        return max < 0 ? Optional.empty() : Optional.of(max);
     }
 
     private static double logRatio(MeasuredLevel a, MeasuredLevel b) {
@@ -357,7 +377,7 @@ public final class RydbergHyperfine {
      */
     public ScalingLawError scalingLawError(DataContext context) {
         Objects.requireNonNull(context, "context");
-        return memo ? context.scalingLaw(this).error() : workOutScalingLawError(context);
+        return (memo ? context.scalingLaw(this) : workOutLaw(context)).error();
     }
 
     /**
@@ -421,54 +441,23 @@ public final class RydbergHyperfine {
      * @throws IllegalStateException as {@link #scalingLawError} does
      */
     Law workOutLaw(DataContext context) {
-        ScalingLawError error = workOutScalingLawError(context);
-        Map<Series, Optional<Double>> drifts = new IdentityHashMap<>();
+        // each series' measured levels read once, for its own figures, its l's and the overall ones
+        Map<Series, SeriesFigures> figures = new IdentityHashMap<>();
         Map<Integer, Double> driftOfL = new java.util.HashMap<>();
         Map<Integer, Double> capOfL = new java.util.HashMap<>();
-        for (Series row : series) {
-            Optional<Double> drift = driftPerN(context, row);
-            drifts.put(row, drift);
-            if (drift.isPresent()) {
-                driftOfL.merge(row.l(), drift.get(), Math::max);
-                capOfL.merge(row.l(), largestChange(measuredLevels(context, row)), Math::max);
-            }
-        }
-        Map<Series, SeriesLaw> out = new IdentityHashMap<>();
-        for (Series row : series) {
-            double drift = drifts.get(row).orElse(driftOfL.getOrDefault(row.l(), error.driftPerN()));
-            out.put(row, new SeriesLaw(drift, capOfL.getOrDefault(row.l(), error.cap())));
-        }
-        return new Law(error, Collections.unmodifiableMap(out));
-    }
-
-    /** @return the largest |ln(X_b / X_a)| over every pair of the levels */
-    private static double largestChange(List<MeasuredLevel> levels) {
-        double max = 0;
-        for (int i = 0; i < levels.size(); i++) {
-            for (int k = i + 1; k < levels.size(); k++) {
-                max = Math.max(max, logRatio(levels.get(i), levels.get(k)));
-            }
-        }
-        return max;
-    }
-
-    private ScalingLawError workOutScalingLawError(DataContext context) {
         double drift = -1;
         double cap = -1;
         String pair = "";
         for (Series row : series) {
-            List<MeasuredLevel> levels = measuredLevels(context, row);
-            for (int i = 0; i < levels.size(); i++) {
-                for (int k = i + 1; k < levels.size(); k++) {
-                    MeasuredLevel a = levels.get(i);
-                    MeasuredLevel b = levels.get(k);
-                    double change = logRatio(a, b);
-                    double perN = change / (b.state().n() - a.state().n());
-                    cap = Math.max(cap, change);
-                    if (perN > drift) {
-                        drift = perN;
-                        pair = row.species().notation() + " " + a.state().notation() + " - " + b.state().notation();
-                    }
+            SeriesFigures f = SeriesFigures.of(row, measuredLevels(context, row));
+            figures.put(row, f);
+            if (f.drift() >= 0) {
+                driftOfL.merge(row.l(), f.drift(), Math::max);
+                capOfL.merge(row.l(), f.change(), Math::max);
+                cap = Math.max(cap, f.change());
+                if (f.drift() > drift) {
+                    drift = f.drift();
+                    pair = f.pair();
                 }
             }
         }
@@ -476,7 +465,14 @@ public final class RydbergHyperfine {
             throw new IllegalStateException("no series of the Rydberg hyperfine data has two measured levels: the "
                     + "n*^-3 law's error cannot be estimated");
         }
-        return new ScalingLawError(drift, cap, pair);
+        ScalingLawError error = new ScalingLawError(drift, cap, pair);
+        Map<Series, SeriesLaw> out = new IdentityHashMap<>();
+        for (Series row : series) {
+            double own = figures.get(row).drift();
+            out.put(row, new SeriesLaw(own >= 0 ? own : driftOfL.getOrDefault(row.l(), error.driftPerN()),
+                    capOfL.getOrDefault(row.l(), error.cap())));
+        }
+        return new Law(error, Collections.unmodifiableMap(out));
     }
 
     /**
