@@ -10,7 +10,6 @@ import org.ritzwerk.atom.State;
 import org.ritzwerk.constants.PhysicalConstants;
 import org.ritzwerk.engine.hyperfine.HyperfineConstants;
 import org.ritzwerk.engine.hyperfine.ZeemanState;
-import org.ritzwerk.engine.hyperfine.ZeemanStructure;
 import org.ritzwerk.engine.rydberg.AlkaliAtom;
 import org.ritzwerk.engine.rydberg.RydbergException;
 import org.ritzwerk.refdata.AlkaliHyperfine;
@@ -133,11 +132,8 @@ final class RydbergHyperfineLevels {
             }
             if (state.l() > 0 && fieldTesla > 0) {
                 try {
-                    double fs = atom.frequencyHz(State.of(state.n(), state.l(), 2 * state.l() - 1),
-                            State.of(state.n(), state.l(), 2 * state.l() + 1));
                     mixing.add(String.format(Locale.ROOT, "%s %s: up to %.2g MHz", atom.species().notation(),
-                            state.notation(), ZeemanStructure.fineStructureMixingHertz(state.l(), fs, fieldTesla)
-                                    / 1e6));
+                            state.notation(), AlkaliHyperfine.fineStructureMixingHertz(atom, state, fieldTesla) / 1e6));
                 } catch (RydbergException e) {
                     mixing.add(atom.species().notation() + " " + state.notation() + ": not estimated ("
                             + e.getMessage() + ")");

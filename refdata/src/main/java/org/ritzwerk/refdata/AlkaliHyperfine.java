@@ -465,6 +465,23 @@ public final class AlkaliHyperfine {
     }
 
     /**
+     * The largest shift that diagonalising one level on its own leaves out in a field
+     * ({@link DataContext#zeemanStates}): the field's mixing with its fine-structure partner,
+     * {@link ZeemanStructure#fineStructureMixingHertz} with the atom's splitting of the two J levels.
+     *
+     * @param atom       the atom
+     * @param state      a level with l > 0
+     * @param fieldTesla the field, tesla
+     * @return the shift, Hz (second order)
+     * @throws org.ritzwerk.engine.rydberg.RydbergException when the atom has no level for the partner
+     */
+    public static double fineStructureMixingHertz(AlkaliAtom atom, State state, double fieldTesla) {
+        double splitting = atom.frequencyHz(State.of(state.n(), state.l(), 2 * state.l() - 1),
+                State.of(state.n(), state.l(), 2 * state.l() + 1));
+        return ZeemanStructure.fineStructureMixingHertz(state.l(), splitting, fieldTesla);
+    }
+
+    /**
      * One F-resolved path of a two-step (ladder) excitation, F -> F' -> F''.
      *
      * <p>NaN policy: an uncertainty is NaN when not estimated (a step's centroid has none: a level of the step
