@@ -63,6 +63,7 @@ Numbers, as the data files hold them (their sources named there; most from memor
 
 import mpmath
 import sympy
+import golden_csv
 
 mpmath.mp.dps = 50
 C = mpmath.mpf(299792458)
@@ -223,13 +224,7 @@ def nstr(x, digits=20):
 
 
 def write(name, tolerances, columns, rows):
-    with open(name, "w", newline="\n") as f:
-        for line in HEADER + tolerances:
-            f.write(line + "\n")
-        f.write(",".join(columns) + "\n")
-        for row in rows:
-            assert len(row) == len(columns) and all("," not in str(x) for x in row), row
-            f.write(",".join(str(x) for x in row) + "\n")
+    golden_csv.write(name, HEADER + tolerances, columns, rows)
 
 
 # ---- 1. F-level shifts and their uncertainties
